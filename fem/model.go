@@ -1,0 +1,189 @@
+package fem
+
+// Dof names one of the three motions of a point of the member.
+type Dof int
+
+// The three degrees of freedom of a node. Axial is the bar problem; Transverse
+// and Rotation make up the beam problem.
+const (
+	Axial      Dof = iota // u, along x, m
+	Transverse            // w, along y (up), m
+	Rotation              // θ = dw/dx, counter-clockwise, rad
+)
+
+// String gives the trade's word for the motion.
+func (d Dof) String() string {
+	switch d {
+	case Axial:
+		return "axial"
+	case Transverse:
+		return "transverse"
+	case Rotation:
+		return "rotation"
+	}
+	return "unknown"
+}
+
+// Section holds the cross-section properties of a segment.
+type Section struct {
+	Area          float64 // A, m²
+	SecondMoment  float64 // I about the bending axis, m⁴
+	FibreDistance float64 // c, distance from the neutral axis to the extreme fibre, m
+}
+
+// Material holds the material properties of a segment.
+type Material struct {
+	Name             string
+	Elastic          float64 // Young's modulus E, Pa
+	Density          float64 // ρ, kg/m³ (used for self-weight)
+	ThermalExpansion float64 // α, 1/K
+	Allowable        float64 // allowable (or yield) stress, Pa; 0 means not given
+}
+
+// Segment is a stretch of the member with one section and one material.
+// Segments are listed in order and must tile [0, L] without gaps or overlaps.
+type Segment struct {
+	Start, End float64 // m
+	Section    Section
+	Material   Material
+}
+
+// SupportKind says which motions a support restrains.
+type SupportKind int
+
+// Support kinds. Spring supports restrain each motion elastically with the
+// stiffness given in Support.Stiffness (0 leaves that motion free).
+const (
+	Fixed     SupportKind = iota // axial, transverse and rotation restrained
+	Pinned                       // axial and transverse restrained
+	Roller                       // transverse restrained
+	AxialOnly                    // axial restrained
+	Guided                       // axial and rotation restrained, free to deflect
+	Spring                       // elastic in each motion
+)
+
+var supportKindNames = [...]string{"fixed", "pinned", "roller", "axial", "guided", "spring"}
+
+// String gives the kind's name as used in files and messages.
+func (k SupportKind) String() string {
+	if k < 0 || int(k) >= len(supportKindNames) {
+		return "unknown"
+	}
+	return supportKindNames[k]
+}
+
+// ParseSupportKind is the inverse of SupportKind.String.
+func ParseSupportKind(s string) (SupportKind, bool) {
+	for i, n := range supportKindNames {
+		if n == s {
+			return SupportKind(i), true
+		}
+	}
+	return 0, false
+}
+
+// Restrains reports whether the kind holds motion d rigidly.
+func (k SupportKind) Restrains(d Dof) bool {
+	switch k {
+	case Fixed:
+		return true
+	case Pinned:
+		return d == Axial || d == Transverse
+	case Roller:
+		return d == Transverse
+	case AxialOnly:
+		return d == Axial
+	case Guided:
+		return d == Axial || d == Rotation
+	}
+	return false
+}
+
+// Support is a restraint at one point of the member.
+type Support struct {
+	X    float64 // position along the member, m
+	Kind SupportKind
+	// Stiffness of a Spring support per Dof: N/m, N/m, N·m/rad. Ignored for rigid kinds.
+	Stiffness [3]float64
+	// Settlement is the prescribed displacement of each rigidly restrained Dof: m, m, rad.
+	// Entries for motions the kind leaves free are ignored.
+	Settlement [3]float64
+}
+
+// PointLoad is a concentrated force and/or moment at one point.
+type PointLoad struct {
+	X          float64 // m
+	Axial      float64 // force along +x, N
+	Transverse float64 // force along +y (up), N
+	Moment     float64 // counter-clockwise moment, N·m
+}
+
+// LoadPoint is one vertex of a piecewise-linear distributed load.
+type LoadPoint struct {
+	X         float64 // m
+	Intensity float64 // N/m, along +x for axial loads, along +y (up) for transverse loads
+}
+
+// DistributedLoad is a piecewise-linear line load over [Points[0].X, Points[last].X].
+// Two points make a uniform, triangular or trapezoidal load; more make a polyline.
+type DistributedLoad struct {
+	Direction Dof // Axial or Transverse
+	Points    []LoadPoint
+}
+
+// ElementOrder chooses the bar element; beams are always 2-node Hermite cubics.
+type ElementOrder int
+
+// Bar element orders.
+const (
+	LinearBar    ElementOrder = 1 // 2-node linear bar
+	QuadraticBar ElementOrder = 2 // 3-node quadratic bar
+)
+
+// MeshSettings controls the subdivision of the member into elements.
+// Nodes are always placed at segment breaks, supports, point loads and load
+// break points; each stretch between them is then divided uniformly.
+type MeshSettings struct {
+	// Elements is the requested total number of elements (at least one per stretch).
+	Elements int
+	// MaxElementLength, when > 0, caps the element length in m; the finer of the two rules wins.
+	MaxElementLength float64
+	BarOrder         ElementOrder // 0 means LinearBar
+}
+
+// StandardGravity is gₙ, exact by definition (CGPM 1901; NIST SP 811, 2008, B.8).
+const StandardGravity = 9.80665 // m/s²
+
+// Model is one straight member along x, from 0 to L, in SI units.
+type Model struct {
+	Segments        []Segment
+	Supports        []Support
+	PointLoads      []PointLoad
+	DistributedLoad []DistributedLoad
+	// Gravity is the acceleration of self-weight in member axes (x along the
+	// member, y up), m/s². Zero means no self-weight. A horizontal beam has
+	// {0, -StandardGravity}; a rod hanging from x = 0 has {StandardGravity, 0}.
+	Gravity [2]float64
+	// TemperatureChange is a uniform change of temperature along the member, K.
+	TemperatureChange float64
+	Mesh              MeshSettings
+}
+
+// Length is the member length L, m (the end of the last segment).
+func (m *Model) Length() float64 {
+	if len(m.Segments) == 0 {
+		return 0
+	}
+	return m.Segments[len(m.Segments)-1].End
+}
+
+// SegmentAt returns the index of the segment that holds x; at a break it
+// returns the segment to the right, at the member end the last one.
+func (m *Model) SegmentAt(x float64) int {
+	for i, s := range m.Segments {
+		if x < s.End {
+			return i
+		}
+	}
+	return len(m.Segments) - 1
+}

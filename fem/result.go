@@ -1,0 +1,59 @@
+package fem
+
+// Side picks the limit at a point where a field jumps (under a point load, at
+// a support, at a change of section).
+type Side int
+
+// Sides of a point.
+const (
+	Left  Side = -1
+	Right Side = 1
+)
+
+// Fields are all result quantities at one position x along the member.
+type Fields struct {
+	X                 float64 // m
+	AxialDisplacement float64 // u, m
+	Deflection        float64 // w, m, positive up
+	Rotation          float64 // θ = dw/dx, rad, counter-clockwise
+	AxialForce        float64 // N, N, tension positive
+	ShearForce        float64 // V = dM/dx, N
+	BendingMoment     float64 // M = EI·w'', N·m, sagging positive
+	AxialStress       float64 // N/A, Pa
+	BendingStress     float64 // M·c/I, Pa (positive in the bottom fibre under sagging)
+	CombinedStress    float64 // N/A ± M·c/I, whichever extreme fibre is larger in magnitude, Pa
+}
+
+// Field is anything that can be read at a point: the finite element solution
+// and the exact solution both are.
+type Field interface {
+	At(x float64, side Side) Fields
+}
+
+// Element is one finite element of the mesh.
+type Element struct {
+	Segment    int     // index of the segment it lies in
+	Start, End float64 // m
+	First      int     // index of its first end node in Mesh.X; the other end node is First+1
+}
+
+// Mesh is the subdivision of the member. X holds the end nodes of the elements
+// in increasing order; quadratic bars add an internal node at each element's
+// middle that is not listed here.
+type Mesh struct {
+	X        []float64
+	Elements []Element
+}
+
+// Reaction is the force a support exerts on the member, in member axes.
+type Reaction struct {
+	Support int        // index into Model.Supports
+	X       float64    // m
+	Force   [3]float64 // axial N, transverse N, moment N·m (counter-clockwise)
+}
+
+// Equilibrium compares applied loads with reactions: Fx, Fy and the moment
+// about x = 0. Residual = Applied + Reactions, which must vanish.
+type Equilibrium struct {
+	Applied, Reactions, Residual [3]float64
+}
