@@ -7,7 +7,9 @@ import "errors"
 type Exact struct{}
 
 // SolveExact integrates the governing equations in closed form.
-func SolveExact(m *Model) (*Exact, error) { return nil, errors.New("fem: exact solution not yet written") }
+func SolveExact(m *Model) (*Exact, error) {
+	return nil, errors.New("fem: exact solution not yet written")
+}
 
 // At evaluates the exact fields at x.
 func (e *Exact) At(x float64, side Side) Fields { return Fields{X: x} }
