@@ -1,0 +1,365 @@
+// Package units converts Stave's SI values to and from the units an engineer
+// reads and types, in two systems of display units: SI (m, mm, kN, MPa, ...)
+// and US customary (ft, in, kip, ksi, ...).
+//
+// The fem package works in base SI units only (m, N, Pa, kg, K, s, J). This
+// package sits at the edges: input fields call Parse, panels and reports call
+// Format. Each value a user sees is of one Quantity (a force, a moment, a
+// stress...); a System maps every Quantity to one Unit.
+//
+// A Unit is a symbol and one factor, ToSI: SI value = display value × ToSI.
+// Every factor is exact, derived from the defining values of NIST Special
+// Publication 811 (2008), Appendix B: 1 ft = 0.3048 m, 1 in = 0.0254 m,
+// 1 lb = 0.45359237 kg, gₙ = 9.80665 m/s², hence 1 lbf = 4.4482216152605 N.
+// Temperatures are only ever differences here (a change of temperature, and
+// expansion per degree), so there is no offset: 1 °F difference = 5/9 K.
+package units
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+)
+
+// Quantity names the kind of a value, which picks its display unit.
+type Quantity int
+
+// Quantities Stave displays.
+const (
+	Position               Quantity = iota // x along the member (m / ft)
+	Dimension                              // section dimensions (mm / in)
+	Deflection                             // displacements (mm / in)
+	Rotation                               // rad in both systems
+	Force                                  // kN / kip
+	Moment                                 // kN·m / kip·ft
+	LineLoad                               // kN/m / kip/ft
+	Stress                                 // MPa / ksi
+	Modulus                                // GPa / ksi
+	Area                                   // mm² / in²
+	SecondMoment                           // 10⁶ mm⁴ / in⁴
+	SectionModulus                         // 10³ mm³ / in³
+	Density                                // kg/m³ / lb/ft³
+	ThermalExpansion                       // 1/K / 1/°F
+	TemperatureChange                      // K / °F (differences)
+	TranslationalStiffness                 // kN/m / kip/in
+	RotationalStiffness                    // kN·m/rad / kip·in/rad
+	Acceleration                           // m/s² / ft/s²
+	Energy                                 // J / kip·in
+	quantityCount
+)
+
+var quantityNames = [quantityCount]string{
+	"position", "section dimension", "deflection", "rotation", "force", "moment",
+	"line load", "stress", "modulus", "area", "second moment of area",
+	"section modulus", "density", "thermal expansion coefficient",
+	"temperature change", "translational stiffness", "rotational stiffness",
+	"acceleration", "energy",
+}
+
+// String names the quantity in plain words, for messages.
+func (q Quantity) String() string {
+	if q < 0 || q >= quantityCount {
+		return "unknown quantity"
+	}
+	return quantityNames[q]
+}
+
+// Quantities lists every Quantity in declaration order.
+func Quantities() []Quantity {
+	qs := make([]Quantity, quantityCount)
+	for i := range qs {
+		qs[i] = Quantity(i)
+	}
+	return qs
+}
+
+// Unit is a display unit: SI value = display value × ToSI.
+type Unit struct {
+	Symbol string
+	ToSI   float64
+}
+
+// Defining values, NIST SP 811 (2008), Appendix B.8 (exact by definition).
+const (
+	foot            = 0.3048     // m
+	inch            = 0.0254     // m
+	pound           = 0.45359237 // kg (avoirdupois pound, mass)
+	standardGravity = 9.80665    // m/s²
+	poundForce      = pound * standardGravity
+	kip             = 1000 * poundForce
+	fahrenheitStep  = 5.0 / 9.0 // K per °F of difference
+)
+
+// System is a consistent set of display units, one per Quantity.
+type System struct {
+	Name  string
+	Units [quantityCount]Unit
+}
+
+// SI shows positions in m and section dimensions and deflections in mm.
+// Second moments and section moduli are in 10⁶ mm⁴ and 10³ mm³, the way
+// metric steel section tables print them (CISC Handbook of Steel Construction,
+// AISC metric tables; from memory): an IPE 300 reads 83.56 rather than 83560000.
+// Treat as read-only.
+var SI = System{Name: "SI", Units: [quantityCount]Unit{
+	Position:               {"m", 1},
+	Dimension:              {"mm", 1e-3},
+	Deflection:             {"mm", 1e-3},
+	Rotation:               {"rad", 1},
+	Force:                  {"kN", 1e3},
+	Moment:                 {"kN·m", 1e3},
+	LineLoad:               {"kN/m", 1e3},
+	Stress:                 {"MPa", 1e6},
+	Modulus:                {"GPa", 1e9},
+	Area:                   {"mm²", 1e-6},
+	SecondMoment:           {"10⁶ mm⁴", 1e-6},
+	SectionModulus:         {"10³ mm³", 1e-6},
+	Density:                {"kg/m³", 1},
+	ThermalExpansion:       {"1/K", 1},
+	TemperatureChange:      {"K", 1},
+	TranslationalStiffness: {"kN/m", 1e3},
+	RotationalStiffness:    {"kN·m/rad", 1e3},
+	Acceleration:           {"m/s²", 1},
+	Energy:                 {"J", 1},
+}}
+
+// USCustomary uses ft for positions, in for dimensions and deflections, kips
+// and ksi, as US structural practice does. Treat as read-only.
+var USCustomary = System{Name: "US", Units: [quantityCount]Unit{
+	Position:               {"ft", foot},
+	Dimension:              {"in", inch},
+	Deflection:             {"in", inch},
+	Rotation:               {"rad", 1},
+	Force:                  {"kip", kip},
+	Moment:                 {"kip·ft", kip * foot},
+	LineLoad:               {"kip/ft", kip / foot},
+	Stress:                 {"ksi", kip / (inch * inch)},
+	Modulus:                {"ksi", kip / (inch * inch)},
+	Area:                   {"in²", inch * inch},
+	SecondMoment:           {"in⁴", inch * inch * inch * inch},
+	SectionModulus:         {"in³", inch * inch * inch},
+	Density:                {"lb/ft³", pound / (foot * foot * foot)},
+	ThermalExpansion:       {"1/°F", 1 / fahrenheitStep},
+	TemperatureChange:      {"°F", fahrenheitStep},
+	TranslationalStiffness: {"kip/in", kip / inch},
+	RotationalStiffness:    {"kip·in/rad", kip * inch},
+	Acceleration:           {"ft/s²", foot},
+	Energy:                 {"kip·in", kip * inch},
+}}
+
+// extraUnits are further units Parse accepts for a quantity, beyond the two
+// systems' own, so a user may type "300 mm" for a position or "0.3 m" for a
+// depth.
+var extraUnits = map[Quantity][]Unit{
+	Position:               {{"mm", 1e-3}, {"cm", 1e-2}, {"in", inch}},
+	Dimension:              {{"m", 1}, {"cm", 1e-2}, {"ft", foot}},
+	Deflection:             {{"m", 1}, {"cm", 1e-2}, {"ft", foot}},
+	Force:                  {{"N", 1}, {"MN", 1e6}, {"lbf", poundForce}},
+	Moment:                 {{"N·m", 1}, {"kN·mm", 1}, {"kip·in", kip * inch}, {"lbf·ft", poundForce * foot}, {"lbf·in", poundForce * inch}},
+	LineLoad:               {{"N/m", 1}, {"N/mm", 1e3}, {"kip/in", kip / inch}, {"lbf/ft", poundForce / foot}},
+	Stress:                 {{"Pa", 1}, {"kPa", 1e3}, {"N/mm²", 1e6}, {"GPa", 1e9}, {"psi", poundForce / (inch * inch)}},
+	Modulus:                {{"Pa", 1}, {"MPa", 1e6}, {"N/mm²", 1e6}, {"psi", poundForce / (inch * inch)}},
+	Area:                   {{"m²", 1}, {"cm²", 1e-4}},
+	SecondMoment:           {{"mm⁴", 1e-12}, {"cm⁴", 1e-8}, {"m⁴", 1}},
+	SectionModulus:         {{"mm³", 1e-9}, {"cm³", 1e-6}, {"m³", 1}},
+	ThermalExpansion:       {{"1/°C", 1}},
+	TemperatureChange:      {{"°C", 1}},
+	TranslationalStiffness: {{"N/m", 1}, {"kN/mm", 1e6}, {"lbf/in", poundForce / inch}},
+	RotationalStiffness:    {{"N·m/rad", 1}, {"kip·ft/rad", kip * foot}},
+	Acceleration:           {{"g", standardGravity}},
+	Energy:                 {{"kJ", 1e3}, {"N·m", 1}, {"ft·lbf", foot * poundForce}},
+}
+
+// Systems lists the display systems, SI first.
+func Systems() []System { return []System{SI, USCustomary} }
+
+// ByName finds a system by its Name ("SI" or "US").
+func ByName(name string) (System, bool) {
+	for _, s := range Systems() {
+		if s.Name == name {
+			return s, true
+		}
+	}
+	return System{}, false
+}
+
+// Unit is the display unit of q in this system.
+func (s System) Unit(q Quantity) Unit {
+	if q < 0 || q >= quantityCount {
+		return Unit{Symbol: "?", ToSI: 1}
+	}
+	return s.Units[q]
+}
+
+// ToDisplay converts an SI value of q to this system's display unit.
+func (s System) ToDisplay(q Quantity, vSI float64) float64 { return vSI / s.Unit(q).ToSI }
+
+// FromDisplay converts a value in this system's display unit of q to SI.
+func (s System) FromDisplay(q Quantity, v float64) float64 { return v * s.Unit(q).ToSI }
+
+// significantFigures is what Format shows: four figures is finer than any
+// load or property a member check starts from is known.
+const significantFigures = 4
+
+// Format shows an SI value of q in display units with four significant
+// figures and the unit symbol, e.g. "-12.50 kN·m".
+func (s System) Format(q Quantity, vSI float64) string {
+	return FormatNumber(s.ToDisplay(q, vSI)) + " " + s.Unit(q).Symbol
+}
+
+// FormatNumber writes v with four significant figures, in fixed notation
+// between 0.001 and 10⁶ and in exponent notation outside.
+func FormatNumber(v float64) string {
+	switch {
+	case math.IsNaN(v) || math.IsInf(v, 0):
+		return strconv.FormatFloat(v, 'g', -1, 64)
+	case v == 0:
+		return "0"
+	}
+	// Round first so 9.9996 becomes 10.00, not 9.9996 printed as "10.000".
+	rounded, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'e', significantFigures-1, 64), 64)
+	exponent := int(math.Floor(math.Log10(math.Abs(rounded))))
+	if exponent < -3 || exponent >= 6 {
+		return strconv.FormatFloat(rounded, 'e', significantFigures-1, 64)
+	}
+	return strconv.FormatFloat(rounded, 'f', max(significantFigures-1-exponent, 0), 64)
+}
+
+// Parse reads text typed for a value of q and returns it in SI. A plain
+// number is taken in this system's display unit; a number followed by a
+// unit symbol of q from either system (or a common variant such as N, Pa,
+// mm⁴) is converted from that unit: "12 kN", "3.5 ft", "2.1e5 MPa".
+// Symbols may be typed in ASCII: "kN*m", "kN.m", "mm^4", "in4".
+func (s System) Parse(q Quantity, text string) (float64, error) {
+	if q < 0 || q >= quantityCount {
+		return 0, fmt.Errorf("cannot read %q: unknown quantity %d", text, int(q))
+	}
+	number, symbol := splitNumber(text)
+	v, err := strconv.ParseFloat(number, 64)
+	if number == "" || (err != nil && !errors.Is(err, strconv.ErrRange)) {
+		return 0, fmt.Errorf("expected %s such as %s; got '%s'", article(q), s.example(q), strings.TrimSpace(text))
+	}
+	if math.IsInf(v, 0) || math.IsNaN(v) {
+		return 0, fmt.Errorf("expected a finite %s such as %s; got '%s'", q, s.example(q), strings.TrimSpace(text))
+	}
+	if symbol == "" {
+		return s.FromDisplay(q, v), nil
+	}
+	if u, ok := lookUp(q, symbol); ok {
+		return v * u.ToSI, nil
+	}
+	if other, ok := quantityOf(symbol); ok {
+		return 0, fmt.Errorf("'%s' is %s, but %s is expected here; use one of %s",
+			strings.TrimSpace(text), article(other), q, strings.Join(Accepted(q), ", "))
+	}
+	return 0, fmt.Errorf("unknown unit '%s' for %s; use one of %s",
+		symbol, article(q), strings.Join(Accepted(q), ", "))
+}
+
+// Accepted lists the unit symbols Parse takes for q: SI's first, then US's,
+// then the variants.
+func Accepted(q Quantity) []string {
+	var out []string
+	for _, u := range candidates(q) {
+		if !contains(out, u.Symbol) {
+			out = append(out, u.Symbol)
+		}
+	}
+	return out
+}
+
+func contains(list []string, s string) bool {
+	for _, x := range list {
+		if x == s {
+			return true
+		}
+	}
+	return false
+}
+
+func candidates(q Quantity) []Unit {
+	if q < 0 || q >= quantityCount {
+		return nil
+	}
+	return append([]Unit{SI.Units[q], USCustomary.Units[q]}, extraUnits[q]...)
+}
+
+func lookUp(q Quantity, symbol string) (Unit, bool) {
+	key := normalize(symbol)
+	for _, u := range candidates(q) {
+		if normalize(u.Symbol) == key {
+			return u, true
+		}
+	}
+	return Unit{}, false
+}
+
+func quantityOf(symbol string) (Quantity, bool) {
+	for _, q := range Quantities() {
+		if _, ok := lookUp(q, symbol); ok {
+			return q, true
+		}
+	}
+	return 0, false
+}
+
+func (s System) example(q Quantity) string {
+	return "12 " + s.Unit(q).Symbol
+}
+
+func article(q Quantity) string {
+	name := q.String()
+	if strings.ContainsRune("aeiou", rune(name[0])) {
+		return "an " + name
+	}
+	return "a " + name
+}
+
+// splitNumber separates a leading number from the unit that follows it.
+func splitNumber(text string) (number, symbol string) {
+	t := strings.TrimSpace(strings.ReplaceAll(text, "−", "-"))
+	end := 0
+	seenDigit, seenExponent := false, false
+	for end < len(t) {
+		c := t[end]
+		switch {
+		case c >= '0' && c <= '9':
+			seenDigit = true
+		case c == '.' || ((c == '+' || c == '-') && (end == 0 || t[end-1] == 'e' || t[end-1] == 'E')):
+		case (c == 'e' || c == 'E') && seenDigit && !seenExponent && end+1 < len(t) &&
+			(t[end+1] >= '0' && t[end+1] <= '9' || t[end+1] == '-' || t[end+1] == '+'):
+			seenExponent = true
+		default:
+			return t[:end], strings.TrimSpace(t[end:])
+		}
+		end++
+	}
+	return t, ""
+}
+
+// normalize maps the ways a unit can be typed to one spelling: the
+// multiplication dot, '*', '.', spaces and '^' are dropped and superscript
+// digits become plain ones, so "kN·m", "kN*m" and "kN m" all read "kNm".
+func normalize(symbol string) string {
+	var b strings.Builder
+	for _, r := range symbol {
+		switch r {
+		case '·', '⋅', '*', '.', ' ', '^':
+		case '²':
+			b.WriteByte('2')
+		case '³':
+			b.WriteByte('3')
+		case '⁴':
+			b.WriteByte('4')
+		case '⁶':
+			b.WriteByte('6')
+		case 'º':
+			b.WriteRune('°')
+		default:
+			b.WriteRune(r)
+		}
+	}
+	return b.String()
+}
