@@ -1,0 +1,556 @@
+package storage
+
+import (
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+
+	"stave/fem"
+)
+
+// Problem is one thing wrong with a file.
+type Problem struct {
+	// Path is the place in the file, e.g. "loads[3].points[1]"; empty for the
+	// file as a whole.
+	Path string
+	// Message says what is wrong and what to do.
+	Message string
+}
+
+func (p Problem) String() string {
+	if p.Path == "" {
+		return p.Message
+	}
+	return p.Path + ": " + p.Message
+}
+
+// LoadError lists everything wrong with a file that could not be loaded.
+type LoadError struct {
+	Problems []Problem
+}
+
+func (e *LoadError) Error() string {
+	if len(e.Problems) == 1 {
+		return "the file cannot be opened: " + e.Problems[0].String()
+	}
+	return fmt.Sprintf("the file cannot be opened (%d problems):\n", len(e.Problems)) + listProblems(e.Problems)
+}
+
+func listProblems(problems []Problem) string {
+	lines := make([]string, len(problems))
+	for i, p := range problems {
+		lines[i] = "  - " + p.String()
+	}
+	return strings.Join(lines, "\n")
+}
+
+// Decode reads a project file. On any problem it returns nil and a
+// *LoadError listing all problems found, so an open project is never
+// replaced by a half-read one.
+func Decode(r io.Reader) (*Project, error) {
+	data, err := io.ReadAll(r)
+	if err != nil {
+		return nil, fmt.Errorf("storage: cannot read the project: %w", err)
+	}
+	return Unmarshal(data)
+}
+
+// Unmarshal is Decode for bytes already in memory.
+func Unmarshal(data []byte) (*Project, error) {
+	top, err := parseTree(data)
+	if err != nil {
+		return nil, &LoadError{Problems: []Problem{{Message: err.Error()}}}
+	}
+	if problem, ok := checkVersion(top); !ok {
+		return nil, &LoadError{Problems: []Problem{problem}}
+	}
+	var r reader
+	p := r.project(r.object("", top))
+	problems := r.problems
+	for _, q := range check(p) {
+		if !overlapsAny(q.Path, r.problems) {
+			problems = append(problems, q)
+		}
+	}
+	if len(problems) > 0 {
+		return nil, &LoadError{Problems: problems}
+	}
+	return p, nil
+}
+
+// Validate checks a project as Decode would after reading it, so the
+// application can warn before saving a file that would not open again.
+// It returns nil or a *LoadError.
+func Validate(p *Project) error {
+	if problems := check(p); len(problems) > 0 {
+		return &LoadError{Problems: problems}
+	}
+	return nil
+}
+
+// overlapsAny reports whether a problem was already found at path, inside it
+// or around it: a missing or mistyped value need not be reported again as
+// out of range.
+func overlapsAny(path string, problems []Problem) bool {
+	for _, p := range problems {
+		if within(path, p.Path) || within(p.Path, path) {
+			return true
+		}
+	}
+	return false
+}
+
+// within reports whether path is inner or lies inside it.
+func within(inner, outer string) bool {
+	if outer == "" || inner == outer {
+		return true
+	}
+	return strings.HasPrefix(inner, outer) && (inner[len(outer)] == '.' || inner[len(outer)] == '[')
+}
+
+// migration rewrites the parsed file of one format version into the layout of
+// the next.
+type migration func(top *node) error
+
+// migrations maps each old version to the step that lifts it by one. Version
+// 1 is the first released format, so there is nothing to migrate yet; when
+// version 2 comes, migrations[1] turns a version 1 file into version 2.
+var migrations = map[int]migration{}
+
+// checkVersion makes sure top is a Stave project this version can read,
+// migrating older versions in place.
+func checkVersion(top *node) (Problem, bool) {
+	if top.kind != objectNode {
+		return Problem{Message: fmt.Sprintf("the file holds %s, not a Stave project; open a .json file saved by Stave", top.describe())}, false
+	}
+	format := top.fields["format"]
+	if format == nil {
+		return Problem{Path: "format", Message: fmt.Sprintf("missing; a Stave project file starts with \"format\": %q", FormatName)}, false
+	}
+	if format.kind != stringNode || format.text != FormatName {
+		shown := format.describe()
+		if format.kind == stringNode {
+			shown = strconv.Quote(format.text)
+		}
+		return Problem{Path: "format", Message: fmt.Sprintf("is %s, so this is not a Stave project file (expected %q); open a file saved by Stave", shown, FormatName)}, false
+	}
+	version := top.fields["version"]
+	if version == nil {
+		return Problem{Path: "version", Message: fmt.Sprintf("missing; add \"version\": %d after \"format\"", Version)}, false
+	}
+	v, err := strconv.Atoi(version.text)
+	if version.kind != numberNode || err != nil {
+		return Problem{Path: "version", Message: fmt.Sprintf("must be a whole number such as %d", Version)}, false
+	}
+	if v > Version {
+		return Problem{Path: "version", Message: fmt.Sprintf("this file was written by a newer Stave (format version %d); this version reads up to %d — update Stave", v, Version)}, false
+	}
+	if err := migrate(top, v, Version, migrations); err != nil {
+		return Problem{Path: "version", Message: err.Error()}, false
+	}
+	return Problem{}, true
+}
+
+// migrate lifts the parsed file top from format version from to version to,
+// one step at a time, and records the new version in the file.
+func migrate(top *node, from, to int, table map[int]migration) error {
+	for v := from; v < to; v++ {
+		step := table[v]
+		if step == nil {
+			return fmt.Errorf("format version %d is older than any this Stave can read (it reads versions %d to %d); open the file with the Stave that wrote it and save it again", from, firstReadable(table, to), to)
+		}
+		if err := step(top); err != nil {
+			return fmt.Errorf("cannot convert the file from format version %d to %d: %v", v, v+1, err)
+		}
+	}
+	top.fields["version"] = &node{kind: numberNode, text: strconv.Itoa(to)}
+	return nil
+}
+
+// firstReadable is the oldest version from which table reaches version to.
+func firstReadable(table map[int]migration, to int) int {
+	v := to
+	for table[v-1] != nil {
+		v--
+	}
+	return v
+}
+
+// reader turns parsed nodes into a Project, noting every problem.
+type reader struct {
+	problems []Problem
+}
+
+func (r *reader) add(path, format string, args ...any) {
+	r.problems = append(r.problems, Problem{Path: path, Message: fmt.Sprintf(format, args...)})
+}
+
+// fields reads one JSON object. Every key it is asked for counts as known;
+// finish reports the others. A fields with a nil node (missing or of the
+// wrong type, already reported) yields zero values silently.
+type fields struct {
+	r     *reader
+	path  string
+	n     *node
+	known []string
+}
+
+func (r *reader) object(path string, n *node) *fields {
+	f := &fields{r: r, path: path}
+	if n == nil {
+		return f
+	}
+	if n.kind != objectNode {
+		r.add(path, "expected an object {...}, found %s", n.describe())
+		return f
+	}
+	f.n = n
+	return f
+}
+
+func join(path, key string) string {
+	if path == "" {
+		return key
+	}
+	return path + "." + key
+}
+
+// get returns the value of key, or nil when it is absent (reported when required).
+// hint tells what to add.
+func (f *fields) get(key string, required bool, hint string) *node {
+	f.known = append(f.known, key)
+	if f.n == nil {
+		return nil
+	}
+	v := f.n.fields[key]
+	if v == nil && required {
+		f.r.add(join(f.path, key), "missing; add %s", hint)
+	}
+	return v
+}
+
+// finish reports keys that were not asked for.
+func (f *fields) finish() {
+	if f.n == nil {
+		return
+	}
+	for _, k := range f.n.keys {
+		if !contains(f.known, k) {
+			f.r.add(join(f.path, k), "unknown key; remove it or correct its spelling (keys allowed here: %s)", strings.Join(f.known, ", "))
+		}
+	}
+}
+
+func contains(list []string, s string) bool {
+	for _, x := range list {
+		if x == s {
+			return true
+		}
+	}
+	return false
+}
+
+// number reads a number in unit (for messages); absent optional numbers are 0.
+func (f *fields) number(key, unit string, required bool) float64 {
+	v := f.get(key, required, fmt.Sprintf("%q with a number in %s", key, unit))
+	return f.r.number(join(f.path, key), v, unit)
+}
+
+func (r *reader) number(path string, v *node, unit string) float64 {
+	if v == nil {
+		return 0
+	}
+	if v.kind != numberNode {
+		r.add(path, "expected a number in %s, found %s", unit, v.describe())
+		return 0
+	}
+	x, err := strconv.ParseFloat(v.text, 64)
+	if err != nil || math.IsInf(x, 0) {
+		r.add(path, "%s is too large for a number; enter a value in %s", v.text, unit)
+		return 0
+	}
+	return x
+}
+
+// count reads a whole number.
+func (f *fields) count(key string, required bool) int {
+	path := join(f.path, key)
+	v := f.get(key, required, fmt.Sprintf("%q with a whole number", key))
+	if v == nil {
+		return 0
+	}
+	x := f.r.number(path, v, "a count")
+	if x != math.Trunc(x) || math.Abs(x) > 1e9 {
+		f.r.add(path, "%s is not a whole number; enter one such as 10", v.text)
+		return 0
+	}
+	return int(x)
+}
+
+// text reads a string; absent optional strings are "".
+func (f *fields) text(key string, required bool, hint string) string {
+	v := f.get(key, required, hint)
+	if v == nil {
+		return ""
+	}
+	if v.kind != stringNode {
+		f.r.add(join(f.path, key), "expected text in quotes, found %s", v.describe())
+		return ""
+	}
+	return v.text
+}
+
+// flag reads true or false; absent flags keep def.
+func (f *fields) flag(key string, def bool) bool {
+	v := f.get(key, false, "")
+	if v == nil {
+		return def
+	}
+	if v.kind != boolNode {
+		f.r.add(join(f.path, key), "expected true or false, found %s", v.describe())
+		return def
+	}
+	return v.truth
+}
+
+// object reads a nested object.
+func (f *fields) object(key string, required bool, hint string) *fields {
+	return f.r.object(join(f.path, key), f.get(key, required, hint))
+}
+
+// list reads an array and returns its elements with their paths.
+func (f *fields) list(key string, required bool, hint string) ([]*node, []string) {
+	path := join(f.path, key)
+	v := f.get(key, required, hint)
+	if v == nil {
+		return nil, nil
+	}
+	if v.kind != arrayNode {
+		f.r.add(path, "expected a list [...], found %s", v.describe())
+		return nil, nil
+	}
+	paths := make([]string, len(v.items))
+	for i := range v.items {
+		paths[i] = fmt.Sprintf("%s[%d]", path, i)
+	}
+	return v.items, paths
+}
+
+func (r *reader) project(top *fields) *Project {
+	p := &Project{}
+	top.get("format", true, "")
+	top.get("version", true, "")
+	r.units(top.object("units", true, "the declaration of SI units (see docs/format.md)"))
+
+	notes := top.object("notes", false, "")
+	p.Notes = Notes{
+		Project:  notes.text("project", false, ""),
+		Member:   notes.text("member", false, ""),
+		Engineer: notes.text("engineer", false, ""),
+		Date:     notes.text("date", false, ""),
+		Text:     notes.text("text", false, ""),
+	}
+	notes.finish()
+
+	member := top.object("member", true, `"member": {"segments": [...]}`)
+	items, paths := member.list("segments", true, `"segments": [...] with at least one segment`)
+	for i, item := range items {
+		p.Model.Segments = append(p.Model.Segments, r.segment(r.object(paths[i], item)))
+	}
+	member.finish()
+
+	items, paths = top.list("supports", true, `"supports": [...]`)
+	for i, item := range items {
+		p.Model.Supports = append(p.Model.Supports, r.support(r.object(paths[i], item)))
+	}
+
+	items, paths = top.list("loads", false, "")
+	for i, item := range items {
+		r.load(p, r.object(paths[i], item))
+	}
+
+	if weight := top.object("self_weight", false, ""); weight.n != nil {
+		p.Model.Gravity = [2]float64{weight.number("gravity_x", "m/s²", true), weight.number("gravity_y", "m/s²", true)}
+		weight.finish()
+	}
+	p.Model.TemperatureChange = top.number("temperature_change", "K", false)
+
+	mesh := top.object("mesh", true, `"mesh": {"elements": ...}`)
+	p.Model.Mesh = fem.MeshSettings{
+		Elements:         mesh.count("elements", true),
+		MaxElementLength: mesh.number("max_element_length", "m", false),
+		BarOrder:         fem.ElementOrder(mesh.count("bar_order", false)),
+	}
+	mesh.finish()
+
+	p.View = r.view(top.object("view", false, ""))
+	top.finish()
+	return p
+}
+
+func (r *reader) units(f *fields) {
+	declared := map[string]string{
+		"length": siUnits.Length, "area": siUnits.Area, "second_moment": siUnits.SecondMoment,
+		"force": siUnits.Force, "moment": siUnits.Moment, "line_load": siUnits.LineLoad,
+		"stress": siUnits.Stress, "density": siUnits.Density, "acceleration": siUnits.Acceleration,
+		"thermal_expansion": siUnits.ThermalExpansion, "temperature_change": siUnits.Temperature,
+		"rotation": siUnits.Rotation, "spring": siUnits.Spring, "rotational_spring": siUnits.RotationalSpring,
+	}
+	for _, key := range unitKeys {
+		want := declared[key]
+		got := f.text(key, true, fmt.Sprintf("%q: %q", key, want))
+		if f.n != nil && f.n.fields[key] != nil && got != want && f.n.fields[key].kind == stringNode {
+			f.r.add(join(f.path, key), "declares %q, but Stave files hold SI base units only; convert the values to %s and declare %q", got, want, want)
+		}
+	}
+	f.finish()
+}
+
+// unitKeys lists the unit declaration's keys in file order.
+var unitKeys = []string{"length", "area", "second_moment", "force", "moment", "line_load", "stress",
+	"density", "acceleration", "thermal_expansion", "temperature_change", "rotation", "spring", "rotational_spring"}
+
+func (r *reader) segment(f *fields) fem.Segment {
+	s := fem.Segment{Start: f.number("start", "m", true), End: f.number("end", "m", true)}
+	section := f.object("section", true, `"section": {"area", "second_moment", "fibre_distance"}`)
+	s.Section = fem.Section{
+		Area:          section.number("area", "m²", true),
+		SecondMoment:  section.number("second_moment", "m⁴", true),
+		FibreDistance: section.number("fibre_distance", "m", false),
+	}
+	section.finish()
+	material := f.object("material", true, `"material": {"name", "elastic_modulus", ...}`)
+	s.Material = fem.Material{
+		Name:             material.text("name", false, ""),
+		Elastic:          material.number("elastic_modulus", "Pa", true),
+		Density:          material.number("density", "kg/m³", false),
+		ThermalExpansion: material.number("thermal_expansion", "1/K", false),
+		Allowable:        material.number("allowable_stress", "Pa", false),
+	}
+	material.finish()
+	f.finish()
+	return s
+}
+
+var supportKindList = `"fixed", "pinned", "roller", "axial", "guided" or "spring"`
+
+func (r *reader) support(f *fields) fem.Support {
+	s := fem.Support{X: f.number("x", "m", true)}
+	kindPath := join(f.path, "kind")
+	name := f.text("kind", true, `"kind": one of `+supportKindList)
+	kind, known := fem.ParseSupportKind(name)
+	if !known && f.n != nil && f.n.fields["kind"] != nil && f.n.fields["kind"].kind == stringNode {
+		r.add(kindPath, "%q is not a support kind; use %s", name, supportKindList)
+	}
+	s.Kind = kind
+	stiffness := f.object("stiffness", known && kind == fem.Spring, `"stiffness": {"axial", "transverse", "rotation"} in N/m, N/m and N·m/rad`)
+	if stiffness.n != nil && known && kind != fem.Spring {
+		r.add(stiffness.path, "only spring supports have a stiffness; remove it or change the kind to \"spring\"")
+	}
+	s.Stiffness = [3]float64{
+		stiffness.number("axial", "N/m", false),
+		stiffness.number("transverse", "N/m", false),
+		stiffness.number("rotation", "N·m/rad", false),
+	}
+	stiffness.finish()
+	settlement := f.object("settlement", false, "")
+	s.Settlement = [3]float64{
+		settlement.number("axial", "m", false),
+		settlement.number("transverse", "m", false),
+		settlement.number("rotation", "rad", false),
+	}
+	settlement.finish()
+	f.finish()
+	return s
+}
+
+func (r *reader) load(p *Project, f *fields) {
+	kind := f.text("kind", true, `"kind": "point" or "distributed"`)
+	switch kind {
+	case pointKindName:
+		p.LoadOrder = append(p.LoadOrder, PointLoad)
+		p.Model.PointLoads = append(p.Model.PointLoads, fem.PointLoad{
+			X:          f.number("x", "m", true),
+			Axial:      f.number("axial", "N", false),
+			Transverse: f.number("transverse", "N", false),
+			Moment:     f.number("moment", "N·m", false),
+		})
+	case distributedKindName:
+		p.LoadOrder = append(p.LoadOrder, DistributedLoad)
+		p.Model.DistributedLoad = append(p.Model.DistributedLoad, r.distributed(f))
+	default:
+		if f.n != nil && f.n.fields["kind"] != nil && f.n.fields["kind"].kind == stringNode {
+			r.add(join(f.path, "kind"), "%q is not a load kind; use \"point\" or \"distributed\"", kind)
+		}
+		return // the other keys depend on the kind
+	}
+	f.finish()
+}
+
+func (r *reader) distributed(f *fields) fem.DistributedLoad {
+	var l fem.DistributedLoad
+	directionPath := join(f.path, "direction")
+	switch d := f.text("direction", true, `"direction": "axial" or "transverse"`); d {
+	case "axial":
+		l.Direction = fem.Axial
+	case "transverse":
+		l.Direction = fem.Transverse
+	case "":
+	default:
+		r.add(directionPath, "%q is not a load direction; use \"axial\" or \"transverse\"", d)
+	}
+	items, paths := f.list("points", true, `"points": [[x, intensity], ...] with x in m and intensity in N/m`)
+	for i, item := range items {
+		if item.kind != arrayNode || len(item.items) != 2 {
+			r.add(paths[i], "expected a pair [x, intensity] (m, N/m), found %s", describeList(item))
+			continue
+		}
+		l.Points = append(l.Points, fem.LoadPoint{
+			X:         r.number(paths[i]+"[0]", item.items[0], "m"),
+			Intensity: r.number(paths[i]+"[1]", item.items[1], "N/m"),
+		})
+	}
+	return l
+}
+
+func describeList(n *node) string {
+	if n.kind == arrayNode {
+		return fmt.Sprintf("a list of %d values", len(n.items))
+	}
+	return n.describe()
+}
+
+func (r *reader) view(f *fields) View {
+	v := DefaultView()
+	if units := f.text("units", false, ""); units != "" || (f.n != nil && f.n.fields["units"] != nil) {
+		v.Units = UnitSystem(units)
+	}
+	o := f.object("overlays", false, "")
+	v.Overlays = Overlays{
+		DeformedShape: o.flag("deformed_shape", v.Overlays.DeformedShape),
+		AxialForce:    o.flag("axial_force", v.Overlays.AxialForce),
+		ShearForce:    o.flag("shear_force", v.Overlays.ShearForce),
+		BendingMoment: o.flag("bending_moment", v.Overlays.BendingMoment),
+		Stress:        o.flag("stress", v.Overlays.Stress),
+		Nodes:         o.flag("nodes", v.Overlays.Nodes),
+		ExactBand:     o.flag("exact_band", v.Overlays.ExactBand),
+	}
+	o.finish()
+	v.Magnification = f.numberOr("magnification", "(no unit)", v.Magnification)
+	v.GridStep = f.numberOr("grid_step", "m", v.GridStep)
+	v.DeflectionLimit = f.numberOr("deflection_limit", "(n in span/n)", v.DeflectionLimit)
+	v.SafetyFactor = f.numberOr("safety_factor", "(no unit)", v.SafetyFactor)
+	f.finish()
+	return v
+}
+
+// numberOr reads an optional number that defaults to def when absent.
+func (f *fields) numberOr(key, unit string, def float64) float64 {
+	if f.n == nil || f.n.fields[key] == nil {
+		f.known = append(f.known, key)
+		return def
+	}
+	return f.number(key, unit, false)
+}

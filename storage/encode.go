@@ -1,0 +1,376 @@
+package storage
+
+import (
+	"bytes"
+	"encoding/json"
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+
+	"stave/fem"
+)
+
+// FormatName is the value of the "format" key of every Stave project file.
+const FormatName = "stave-member"
+
+// Version is the format version this Stave writes and the newest it reads.
+const Version = 1
+
+// The file layout. Struct fields, not maps, so that keys come out in a fixed
+// order and files diff well. Optional values are left out when zero.
+type (
+	fileProject struct {
+		Format            string        `json:"format"`
+		Version           int           `json:"version"`
+		Units             fileUnits     `json:"units"`
+		Notes             fileNotes     `json:"notes,omitzero"`
+		Member            fileMember    `json:"member"`
+		Supports          []fileSupport `json:"supports"`
+		Loads             []any         `json:"loads,omitempty"`
+		SelfWeight        *fileGravity  `json:"self_weight,omitempty"`
+		TemperatureChange number        `json:"temperature_change,omitempty"`
+		Mesh              fileMesh      `json:"mesh"`
+		View              fileView      `json:"view"`
+	}
+	fileUnits struct {
+		Length           string `json:"length"`
+		Area             string `json:"area"`
+		SecondMoment     string `json:"second_moment"`
+		Force            string `json:"force"`
+		Moment           string `json:"moment"`
+		LineLoad         string `json:"line_load"`
+		Stress           string `json:"stress"`
+		Density          string `json:"density"`
+		Acceleration     string `json:"acceleration"`
+		ThermalExpansion string `json:"thermal_expansion"`
+		Temperature      string `json:"temperature_change"`
+		Rotation         string `json:"rotation"`
+		Spring           string `json:"spring"`
+		RotationalSpring string `json:"rotational_spring"`
+	}
+	fileNotes struct {
+		Project  string `json:"project,omitempty"`
+		Member   string `json:"member,omitempty"`
+		Engineer string `json:"engineer,omitempty"`
+		Date     string `json:"date,omitempty"`
+		Text     string `json:"text,omitempty"`
+	}
+	fileMember struct {
+		Segments []fileSegment `json:"segments"`
+	}
+	fileSegment struct {
+		Start    number       `json:"start"`
+		End      number       `json:"end"`
+		Section  fileSection  `json:"section"`
+		Material fileMaterial `json:"material"`
+	}
+	fileSection struct {
+		Area          number `json:"area"`
+		SecondMoment  number `json:"second_moment"`
+		FibreDistance number `json:"fibre_distance,omitempty"`
+	}
+	fileMaterial struct {
+		Name             string `json:"name,omitempty"`
+		Elastic          number `json:"elastic_modulus"`
+		Density          number `json:"density,omitempty"`
+		ThermalExpansion number `json:"thermal_expansion,omitempty"`
+		Allowable        number `json:"allowable_stress,omitempty"`
+	}
+	fileSupport struct {
+		X          number      `json:"x"`
+		Kind       string      `json:"kind"`
+		Stiffness  *fileMotion `json:"stiffness,omitempty"`
+		Settlement *fileMotion `json:"settlement,omitempty"`
+	}
+	// fileMotion holds one value per degree of freedom.
+	fileMotion struct {
+		Axial      number `json:"axial,omitempty"`
+		Transverse number `json:"transverse,omitempty"`
+		Rotation   number `json:"rotation,omitempty"`
+	}
+	filePointLoad struct {
+		Kind       string `json:"kind"`
+		X          number `json:"x"`
+		Axial      number `json:"axial,omitempty"`
+		Transverse number `json:"transverse,omitempty"`
+		Moment     number `json:"moment,omitempty"`
+	}
+	fileDistributedLoad struct {
+		Kind      string      `json:"kind"`
+		Direction string      `json:"direction"`
+		Points    [][2]number `json:"points"`
+	}
+	fileGravity struct {
+		X number `json:"gravity_x"`
+		Y number `json:"gravity_y"`
+	}
+	fileMesh struct {
+		Elements         int    `json:"elements"`
+		MaxElementLength number `json:"max_element_length,omitempty"`
+		BarOrder         int    `json:"bar_order,omitempty"`
+	}
+	fileView struct {
+		Units           string       `json:"units"`
+		Overlays        fileOverlays `json:"overlays"`
+		Magnification   number       `json:"magnification"`
+		GridStep        number       `json:"grid_step"`
+		DeflectionLimit number       `json:"deflection_limit"`
+		SafetyFactor    number       `json:"safety_factor"`
+	}
+	fileOverlays struct {
+		DeformedShape bool `json:"deformed_shape"`
+		AxialForce    bool `json:"axial_force"`
+		ShearForce    bool `json:"shear_force"`
+		BendingMoment bool `json:"bending_moment"`
+		Stress        bool `json:"stress"`
+		Nodes         bool `json:"nodes"`
+		ExactBand     bool `json:"exact_band"`
+	}
+)
+
+// siUnits is the only unit declaration a version 1 file may carry.
+var siUnits = fileUnits{
+	Length:           "m",
+	Area:             "m²",
+	SecondMoment:     "m⁴",
+	Force:            "N",
+	Moment:           "N·m",
+	LineLoad:         "N/m",
+	Stress:           "Pa",
+	Density:          "kg/m³",
+	Acceleration:     "m/s²",
+	ThermalExpansion: "1/K",
+	Temperature:      "K",
+	Rotation:         "rad",
+	Spring:           "N/m",
+	RotationalSpring: "N·m/rad",
+}
+
+// Names of the load kinds and directions in files.
+const (
+	pointKindName       = "point"
+	distributedKindName = "distributed"
+)
+
+var directionNames = map[fem.Dof]string{fem.Axial: "axial", fem.Transverse: "transverse"}
+
+// number is a float64 written in the shortest form that reads back exactly,
+// with a plain exponent (2e11, 8e-6) so that files stay readable.
+type number float64
+
+func (n number) MarshalJSON() ([]byte, error) {
+	f := float64(n)
+	if math.IsNaN(f) || math.IsInf(f, 0) {
+		// toFile has already refused these with the place named.
+		return nil, fmt.Errorf("%v cannot be written to a file", f)
+	}
+	s := strconv.FormatFloat(f, 'g', -1, 64)
+	if i := strings.IndexByte(s, 'e'); i >= 0 {
+		mantissa, exponent := s[:i], strings.TrimPrefix(s[i+1:], "+")
+		sign := ""
+		if strings.HasPrefix(exponent, "-") {
+			sign, exponent = "-", exponent[1:]
+		}
+		s = mantissa + "e" + sign + strings.TrimLeft(exponent, "0")
+	}
+	return []byte(s), nil
+}
+
+// Encode writes p to w as a canonical project file. It refuses values a file
+// cannot hold (NaN, infinities, unknown kinds) and names their place; it does
+// not otherwise check the model, so work in progress can always be saved
+// (Validate tells whether it would load).
+func Encode(w io.Writer, p *Project) error {
+	data, err := Marshal(p)
+	if err != nil {
+		return err
+	}
+	_, err = w.Write(data)
+	return err
+}
+
+// Marshal returns the canonical file bytes of p (see Encode).
+func Marshal(p *Project) ([]byte, error) {
+	var c converter
+	f := c.toFile(p)
+	if len(c.problems) > 0 {
+		return nil, &SaveError{Problems: c.problems}
+	}
+	var compact bytes.Buffer
+	enc := json.NewEncoder(&compact)
+	enc.SetEscapeHTML(false) // notes are for people: keep "<" and "&" readable
+	if err := enc.Encode(f); err != nil {
+		return nil, fmt.Errorf("storage: cannot encode the project: %w", err)
+	}
+	var out bytes.Buffer
+	indentJSON(&out, bytes.TrimSpace(compact.Bytes()))
+	out.WriteByte('\n')
+	return out.Bytes(), nil
+}
+
+// SaveError lists the values of a project that no file can hold.
+type SaveError struct {
+	Problems []Problem
+}
+
+func (e *SaveError) Error() string {
+	return "the project cannot be written:\n" + listProblems(e.Problems)
+}
+
+// converter turns a Project into the file layout, noting values it cannot write.
+type converter struct {
+	problems []Problem
+}
+
+func (c *converter) num(path string, v float64) number {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		c.problems = append(c.problems, Problem{Path: path,
+			Message: fmt.Sprintf("%v is not a number a file can hold; enter a finite value", v)})
+	}
+	return number(v)
+}
+
+func (c *converter) motion(path string, v [3]float64) *fileMotion {
+	if v == [3]float64{} {
+		return nil
+	}
+	return &fileMotion{
+		Axial:      c.num(path+".axial", v[fem.Axial]),
+		Transverse: c.num(path+".transverse", v[fem.Transverse]),
+		Rotation:   c.num(path+".rotation", v[fem.Rotation]),
+	}
+}
+
+func (c *converter) toFile(p *Project) fileProject {
+	m := &p.Model
+	f := fileProject{
+		Format:            FormatName,
+		Version:           Version,
+		Units:             siUnits,
+		Notes:             fileNotes(p.Notes),
+		Member:            fileMember{Segments: make([]fileSegment, len(m.Segments))},
+		Supports:          make([]fileSupport, len(m.Supports)),
+		TemperatureChange: c.num("temperature_change", m.TemperatureChange),
+		Mesh: fileMesh{
+			Elements:         m.Mesh.Elements,
+			MaxElementLength: c.num("mesh.max_element_length", m.Mesh.MaxElementLength),
+			BarOrder:         int(m.Mesh.BarOrder),
+		},
+		View: c.view(p.View),
+	}
+	for i, s := range m.Segments {
+		path := fmt.Sprintf("member.segments[%d]", i)
+		f.Member.Segments[i] = fileSegment{
+			Start: c.num(path+".start", s.Start),
+			End:   c.num(path+".end", s.End),
+			Section: fileSection{
+				Area:          c.num(path+".section.area", s.Section.Area),
+				SecondMoment:  c.num(path+".section.second_moment", s.Section.SecondMoment),
+				FibreDistance: c.num(path+".section.fibre_distance", s.Section.FibreDistance),
+			},
+			Material: fileMaterial{
+				Name:             s.Material.Name,
+				Elastic:          c.num(path+".material.elastic_modulus", s.Material.Elastic),
+				Density:          c.num(path+".material.density", s.Material.Density),
+				ThermalExpansion: c.num(path+".material.thermal_expansion", s.Material.ThermalExpansion),
+				Allowable:        c.num(path+".material.allowable_stress", s.Material.Allowable),
+			},
+		}
+	}
+	for i, s := range m.Supports {
+		path := fmt.Sprintf("supports[%d]", i)
+		fs := fileSupport{X: c.num(path+".x", s.X), Kind: s.Kind.String()}
+		if fs.Kind == "unknown" {
+			c.problems = append(c.problems, Problem{Path: path + ".kind",
+				Message: fmt.Sprintf("support kind %d is unknown; choose one of %s", int(s.Kind), supportKindList)})
+		}
+		if s.Kind == fem.Spring {
+			// A spring always writes its stiffness, even all zero, so the key's presence marks the kind.
+			fs.Stiffness = c.motion(path+".stiffness", s.Stiffness)
+			if fs.Stiffness == nil {
+				fs.Stiffness = &fileMotion{}
+			}
+		} else if s.Stiffness != [3]float64{} {
+			c.problems = append(c.problems, Problem{Path: path + ".stiffness",
+				Message: fmt.Sprintf("a %s support has no spring stiffness; set it to zero or make the support a spring", s.Kind)})
+		}
+		fs.Settlement = c.motion(path+".settlement", s.Settlement)
+		f.Supports[i] = fs
+	}
+	f.Loads = c.loads(p)
+	if m.Gravity != [2]float64{} {
+		f.SelfWeight = &fileGravity{X: c.num("self_weight.gravity_x", m.Gravity[0]), Y: c.num("self_weight.gravity_y", m.Gravity[1])}
+	}
+	return f
+}
+
+// loads lists the loads in the project's load order (see Project.LoadOrder).
+func (c *converter) loads(p *Project) []any {
+	var out []any
+	for i, ref := range fileLoads(p) {
+		path := fmt.Sprintf("loads[%d]", i)
+		if ref.kind == PointLoad {
+			l := p.Model.PointLoads[ref.index]
+			out = append(out, filePointLoad{
+				Kind:       pointKindName,
+				X:          c.num(path+".x", l.X),
+				Axial:      c.num(path+".axial", l.Axial),
+				Transverse: c.num(path+".transverse", l.Transverse),
+				Moment:     c.num(path+".moment", l.Moment),
+			})
+			continue
+		}
+		l := p.Model.DistributedLoad[ref.index]
+		fl := fileDistributedLoad{Kind: distributedKindName, Direction: directionNames[l.Direction],
+			Points: make([][2]number, len(l.Points))}
+		if fl.Direction == "" {
+			c.problems = append(c.problems, Problem{Path: path + ".direction",
+				Message: fmt.Sprintf("direction %s is not one a distributed load can have; choose axial or transverse", l.Direction)})
+		}
+		for j, pt := range l.Points {
+			pp := fmt.Sprintf("%s.points[%d]", path, j)
+			fl.Points[j] = [2]number{c.num(pp+"[0]", pt.X), c.num(pp+"[1]", pt.Intensity)}
+		}
+		out = append(out, fl)
+	}
+	return out
+}
+
+// loadRef names one load of a model.
+type loadRef struct {
+	kind  LoadKind
+	index int // into Model.PointLoads or Model.DistributedLoad
+}
+
+// fileLoads gives the loads of p in file order: first as p.LoadOrder says,
+// then any loads it does not reach, point loads before distributed ones.
+func fileLoads(p *Project) []loadRef {
+	counts := [2]int{len(p.Model.PointLoads), len(p.Model.DistributedLoad)}
+	var next [2]int
+	refs := make([]loadRef, 0, counts[0]+counts[1])
+	for _, k := range p.LoadOrder {
+		if (k == PointLoad || k == DistributedLoad) && next[k] < counts[k] {
+			refs = append(refs, loadRef{k, next[k]})
+			next[k]++
+		}
+	}
+	for _, k := range []LoadKind{PointLoad, DistributedLoad} {
+		for ; next[k] < counts[k]; next[k]++ {
+			refs = append(refs, loadRef{k, next[k]})
+		}
+	}
+	return refs
+}
+
+func (c *converter) view(v View) fileView {
+	return fileView{
+		Units:           string(v.Units),
+		Overlays:        fileOverlays(v.Overlays),
+		Magnification:   c.num("view.magnification", v.Magnification),
+		GridStep:        c.num("view.grid_step", v.GridStep),
+		DeflectionLimit: c.num("view.deflection_limit", v.DeflectionLimit),
+		SafetyFactor:    c.num("view.safety_factor", v.SafetyFactor),
+	}
+}

@@ -1,0 +1,149 @@
+package storage
+
+import (
+	"bytes"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+)
+
+// node is one parsed JSON value. The loader walks nodes instead of decoding
+// straight into structs so that it can report every problem at once, each
+// with its path, rather than stopping at the first.
+type node struct {
+	kind   nodeKind
+	text   string // a string's value or a number's literal text
+	truth  bool
+	items  []*node          // array elements
+	keys   []string         // object keys in file order
+	fields map[string]*node // object members
+}
+
+type nodeKind int
+
+const (
+	nullNode nodeKind = iota
+	boolNode
+	numberNode
+	stringNode
+	arrayNode
+	objectNode
+)
+
+func (n *node) describe() string {
+	switch n.kind {
+	case boolNode:
+		return "true/false"
+	case numberNode:
+		return "a number"
+	case stringNode:
+		return "text"
+	case arrayNode:
+		return "a list [...]"
+	case objectNode:
+		return "an object {...}"
+	}
+	return "null"
+}
+
+// parseTree reads one JSON value and nothing after it. Its errors name the
+// line and column.
+func parseTree(data []byte) (*node, error) {
+	dec := json.NewDecoder(bytes.NewReader(data))
+	dec.UseNumber()
+	p := treeParser{dec: dec, data: data}
+	top, err := p.value()
+	if err != nil {
+		return nil, err
+	}
+	if _, err := dec.Token(); err != io.EOF {
+		return nil, fmt.Errorf("%s: more text follows the end of the project; remove it", p.position(dec.InputOffset()))
+	}
+	return top, nil
+}
+
+type treeParser struct {
+	dec  *json.Decoder
+	data []byte
+}
+
+func (p *treeParser) position(offset int64) string {
+	offset = min(max(offset, 0), int64(len(p.data)))
+	line := 1 + bytes.Count(p.data[:offset], []byte("\n"))
+	column := offset - int64(bytes.LastIndexByte(p.data[:offset], '\n'))
+	return fmt.Sprintf("line %d, column %d", line, column)
+}
+
+func (p *treeParser) fail(err error) error {
+	var syntax *json.SyntaxError
+	switch {
+	case errors.As(err, &syntax):
+		return fmt.Errorf("%s: %v; the file is not valid JSON, fix the text there", p.position(syntax.Offset), syntax)
+	case err == io.EOF || errors.Is(err, io.ErrUnexpectedEOF):
+		return fmt.Errorf("%s: the file ends too early; it may have been cut off", p.position(int64(len(p.data))))
+	}
+	return fmt.Errorf("%s: %v", p.position(p.dec.InputOffset()), err)
+}
+
+func (p *treeParser) value() (*node, error) {
+	tok, err := p.dec.Token()
+	if err != nil {
+		return nil, p.fail(err)
+	}
+	switch t := tok.(type) {
+	case nil:
+		return &node{kind: nullNode}, nil
+	case bool:
+		return &node{kind: boolNode, truth: t}, nil
+	case json.Number:
+		return &node{kind: numberNode, text: string(t)}, nil
+	case string:
+		return &node{kind: stringNode, text: t}, nil
+	case json.Delim:
+		if t == '[' {
+			return p.array()
+		}
+		return p.object()
+	}
+	return nil, p.fail(fmt.Errorf("unexpected %v", tok))
+}
+
+func (p *treeParser) array() (*node, error) {
+	n := &node{kind: arrayNode}
+	for p.dec.More() {
+		item, err := p.value()
+		if err != nil {
+			return nil, err
+		}
+		n.items = append(n.items, item)
+	}
+	if _, err := p.dec.Token(); err != nil { // the closing ']'
+		return nil, p.fail(err)
+	}
+	return n, nil
+}
+
+func (p *treeParser) object() (*node, error) {
+	n := &node{kind: objectNode, fields: map[string]*node{}}
+	for p.dec.More() {
+		tok, err := p.dec.Token()
+		if err != nil {
+			return nil, p.fail(err)
+		}
+		key := tok.(string) // the decoder only yields string keys inside an object
+		if _, dup := n.fields[key]; dup {
+			return nil, fmt.Errorf("%s: the key %q appears twice in one object; keep one", p.position(p.dec.InputOffset()), key)
+		}
+		value, err := p.value()
+		if err != nil {
+			return nil, err
+		}
+		n.keys = append(n.keys, key)
+		n.fields[key] = value
+	}
+	if _, err := p.dec.Token(); err != nil { // the closing '}'
+		return nil, p.fail(err)
+	}
+	return n, nil
+}
