@@ -156,12 +156,11 @@ func checkVersion(top *node) (Problem, bool) {
 // migrate lifts the parsed file top from format version from to version to,
 // one step at a time, and records the new version in the file.
 func migrate(top *node, from, to int, table map[int]migration) error {
+	if oldest := firstReadable(table, to); from < oldest {
+		return fmt.Errorf("format version %d is older than any this Stave can read (it reads versions %d to %d); open the file with the Stave that wrote it and save it again", from, oldest, to)
+	}
 	for v := from; v < to; v++ {
-		step := table[v]
-		if step == nil {
-			return fmt.Errorf("format version %d is older than any this Stave can read (it reads versions %d to %d); open the file with the Stave that wrote it and save it again", from, firstReadable(table, to), to)
-		}
-		if err := step(top); err != nil {
+		if err := table[v](top); err != nil {
 			return fmt.Errorf("cannot convert the file from format version %d to %d: %v", v, v+1, err)
 		}
 	}
@@ -418,7 +417,7 @@ func (r *reader) segment(f *fields) fem.Segment {
 	s.Section = fem.Section{
 		Area:          section.number("area", "m²", true),
 		SecondMoment:  section.number("second_moment", "m⁴", true),
-		FibreDistance: section.number("fibre_distance", "m", false),
+		FibreDistance: section.number("fibre_distance", "m", true),
 	}
 	section.finish()
 	material := f.object("material", true, `"material": {"name", "elastic_modulus", ...}`)
@@ -456,10 +455,12 @@ func (r *reader) support(f *fields) fem.Support {
 	}
 	stiffness.finish()
 	settlement := f.object("settlement", false, "")
-	s.Settlement = [3]float64{
-		settlement.number("axial", "m", false),
-		settlement.number("transverse", "m", false),
-		settlement.number("rotation", "rad", false),
+	units := [3]string{"m", "m", "rad"}
+	for d, name := range motionNames {
+		s.Settlement[d] = settlement.number(name, units[d], false)
+		if settlement.n != nil && settlement.n.fields[name] != nil && known && !kind.Restrains(fem.Dof(d)) {
+			r.add(join(settlement.path, name), "a %s support leaves the %s motion free, so it cannot have a settlement there; remove it", kind, name)
+		}
 	}
 	settlement.finish()
 	f.finish()

@@ -69,7 +69,7 @@ type (
 	fileSection struct {
 		Area          number `json:"area"`
 		SecondMoment  number `json:"second_moment"`
-		FibreDistance number `json:"fibre_distance,omitempty"`
+		FibreDistance number `json:"fibre_distance"`
 	}
 	fileMaterial struct {
 		Name             string `json:"name,omitempty"`
@@ -179,9 +179,10 @@ func (n number) MarshalJSON() ([]byte, error) {
 }
 
 // Encode writes p to w as a canonical project file. It refuses values a file
-// cannot hold (NaN, infinities, unknown kinds) and names their place; it does
-// not otherwise check the model, so work in progress can always be saved
-// (Validate tells whether it would load).
+// cannot hold (NaN, infinities, unknown kinds) and names their place, and
+// leaves out what fem ignores (the stiffness of a rigid support, the
+// settlement of a free motion). It does not otherwise check the model, so work
+// in progress can always be saved; Validate tells whether it would load.
 func Encode(w io.Writer, p *Project) error {
 	data, err := Marshal(p)
 	if err != nil {
@@ -292,11 +293,15 @@ func (c *converter) toFile(p *Project) fileProject {
 			if fs.Stiffness == nil {
 				fs.Stiffness = &fileMotion{}
 			}
-		} else if s.Stiffness != [3]float64{} {
-			c.problems = append(c.problems, Problem{Path: path + ".stiffness",
-				Message: fmt.Sprintf("a %s support has no spring stiffness; set it to zero or make the support a spring", s.Kind)})
 		}
-		fs.Settlement = c.motion(path+".settlement", s.Settlement)
+		// fem ignores the settlement of motions a support leaves free; the file leaves it out.
+		var settlement [3]float64
+		for d := range settlement {
+			if s.Kind.Restrains(fem.Dof(d)) {
+				settlement[d] = s.Settlement[d]
+			}
+		}
+		fs.Settlement = c.motion(path+".settlement", settlement)
 		f.Supports[i] = fs
 	}
 	f.Loads = c.loads(p)

@@ -1,0 +1,159 @@
+package storage
+
+import (
+	"errors"
+	"os"
+	"path/filepath"
+	"slices"
+	"strings"
+	"testing"
+)
+
+func readDemo(t *testing.T) string {
+	t.Helper()
+	data, err := os.ReadFile(filepath.Join("..", "testdata", "demo.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	return string(data)
+}
+
+// One row per kind of problem a file can have. Each row edits the demo file
+// once and expects a problem at path whose message holds phrase.
+func TestDecodeReportsEachKindOfProblem(t *testing.T) {
+	demo := readDemo(t)
+	tests := []struct {
+		name          string
+		old, new      string
+		path, phrase  string
+		replaceWholly bool // new is the whole file
+	}{
+		{name: "not JSON", old: `"version": 1,`, new: `"version": 1,,`, path: "", phrase: "line 3"},
+		{name: "cut off", replaceWholly: true, new: `{"format": "stave-member", "version": 1`, path: "", phrase: "ends too early"},
+		{name: "text after the project", old: "}\n", new: "}\n", replaceWholly: true, path: "", phrase: "more text follows"},
+		{name: "duplicate key", old: `"format": "stave-member",`, new: `"format": "stave-member", "format": "stave-member",`, path: "", phrase: "appears twice"},
+		{name: "not an object", replaceWholly: true, new: "[1, 2]\n", path: "", phrase: "not a Stave project"},
+		{name: "format missing", old: `"format": "stave-member",`, new: ``, path: "format", phrase: "missing"},
+		{name: "format of another program", old: `"format": "stave-member"`, new: `"format": "spreadsheet"`, path: "format", phrase: "not a Stave project file"},
+		{name: "newer version", old: `"version": 1`, new: `"version": 3`, path: "version", phrase: "newer Stave (format version 3); this version reads up to 1 — update Stave"},
+		{name: "older version without migration", old: `"version": 1`, new: `"version": 0`, path: "version", phrase: "older than any"},
+		{name: "version not whole", old: `"version": 1`, new: `"version": 1.5`, path: "version", phrase: "whole number"},
+		{name: "units other than SI", old: `"length": "m"`, new: `"length": "mm"`, path: "units.length", phrase: `SI base units only; convert the values to m`},
+		{name: "unit declaration missing", old: `"moment": "N·m",`, new: ``, path: "units.moment", phrase: `missing; add "moment": "N·m"`},
+		{name: "unknown key at the top", old: `"mesh": {`, new: `"colour": "red", "mesh": {`, path: "colour", phrase: "unknown key"},
+		{name: "unknown key in a section", old: `"area": 0.0243,`, new: `"area": 0.0243, "depth": 0.27,`, path: "member.segments[0].section.depth", phrase: "keys allowed here: area, second_moment, fibre_distance"},
+		{name: "wrong type", old: `"area": 0.0243,`, new: `"area": "0.0243",`, path: "member.segments[0].section.area", phrase: "expected a number in m², found text"},
+		{name: "null", old: `"density": 420,`, new: `"density": null,`, path: "member.segments[0].material.density", phrase: "found null"},
+		{name: "required value missing", old: `"second_moment": 8.54296875e-5,`, new: ``, path: "member.segments[1].section.second_moment", phrase: "missing"},
+		{name: "number too large", old: `"elastic_modulus": 1.15e10,`, new: `"elastic_modulus": 1e999,`, path: "member.segments[0].material.elastic_modulus", phrase: "too large"},
+		{name: "unknown support kind", old: `"kind": "pinned"`, new: `"kind": "hinge"`, path: "supports[0].kind", phrase: `"hinge" is not a support kind`},
+		{name: "stiffness on a rigid support", old: `"kind": "pinned"`, new: `"kind": "pinned", "stiffness": {"axial": 1}`, path: "supports[0].stiffness", phrase: "only spring supports"},
+		{name: "spring without stiffness", old: `"kind": "pinned"`, new: `"kind": "spring"`, path: "supports[0].stiffness", phrase: "missing"},
+		{name: "settlement of a free motion", old: `"kind": "pinned"`, new: `"kind": "pinned", "settlement": {"rotation": 0.01}`, path: "supports[0].settlement.rotation", phrase: "leaves the rotation motion free"},
+		{name: "unknown load kind", old: `"kind": "point"`, new: `"kind": "pont"`, path: "loads[0].kind", phrase: `"pont" is not a load kind`},
+		{name: "unknown load direction", old: `"direction": "transverse"`, new: `"direction": "sideways"`, path: "loads[1].direction", phrase: "not a load direction"},
+		{name: "load point not a pair", old: `[0.5, -1500]`, new: `[0.5]`, path: "loads[1].points[0]", phrase: "expected a pair"},
+		{name: "element count not whole", old: `"elements": 22,`, new: `"elements": 22.5,`, path: "mesh.elements", phrase: "not a whole number"},
+		{name: "flag not true or false", old: `"nodes": false`, new: `"nodes": 0`, path: "view.overlays.nodes", phrase: "expected true or false"},
+		{name: "point load off the member", old: `"x": 4.2,`, new: `"x": 6.2,`, path: "loads[0].x", phrase: "lies outside the member"},
+		{name: "load points out of order", old: `[2.8, -3000]`, new: `[0.4, -3000]`, path: "loads[1].points[1][0]", phrase: "increasing x"},
+		{name: "segments with a gap", old: `"start": 3,`, new: `"start": 3.1,`, path: "member.segments[1].start", phrase: "gap"},
+		{name: "zero area", old: `"area": 0.02025,`, new: `"area": 0,`, path: "member.segments[1].section.area", phrase: "must be positive"},
+		{name: "two supports at one point", old: `"x": 3,`, new: `"x": 5.5,`, path: "supports[2].x", phrase: "both at x = 5.5 m"},
+		{name: "display units unknown", old: `"units": "SI"`, new: `"units": "imperial"`, path: "view.units", phrase: `use "SI" or "US"`},
+		{name: "safety factor zero", old: `"safety_factor": 1`, new: `"safety_factor": 0`, path: "view.safety_factor", phrase: "above zero"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			text := tt.new
+			if !tt.replaceWholly {
+				if !strings.Contains(demo, tt.old) {
+					t.Fatalf("the demo file has no %q to edit", tt.old)
+				}
+				text = strings.Replace(demo, tt.old, tt.new, 1)
+			} else if tt.old != "" {
+				text = demo + tt.new
+			}
+			p, err := Unmarshal([]byte(text))
+			if p != nil {
+				t.Errorf("a file with a problem gave a project")
+			}
+			var le *LoadError
+			if !errors.As(err, &le) {
+				t.Fatalf("error %v is not a *LoadError", err)
+			}
+			for _, q := range le.Problems {
+				if q.Path == tt.path && strings.Contains(q.Message, tt.phrase) {
+					return
+				}
+			}
+			t.Errorf("no problem at %q saying %q; got:\n%v", tt.path, tt.phrase, err)
+		})
+	}
+}
+
+// A file with several problems reports them all, each once, in one error.
+func TestDecodeReportsAllProblemsAtOnce(t *testing.T) {
+	text := readDemo(t)
+	for _, edit := range [][2]string{
+		{`"area": 0.0243,`, `"area": "big",`},
+		{`"kind": "roller"`, `"kind": "wheel"`},
+		{`"x": 4.2,`, `"x": 9,`},
+		{`"elements": 22,`, `"elements": 22, "refine": true,`},
+	} {
+		text = strings.Replace(text, edit[0], edit[1], 1)
+	}
+	_, err := Unmarshal([]byte(text))
+	var le *LoadError
+	if !errors.As(err, &le) {
+		t.Fatalf("error %v is not a *LoadError", err)
+	}
+	want := []string{"member.segments[0].section.area", "supports[1].kind", "loads[0].x", "mesh.refine"}
+	var got []string
+	for _, q := range le.Problems {
+		got = append(got, q.Path)
+	}
+	slices.Sort(got)
+	slices.Sort(want)
+	if !slices.Equal(got, want) {
+		t.Errorf("problems at %v, want exactly %v; error:\n%v", got, want, err)
+	}
+	for _, w := range want {
+		if !strings.Contains(err.Error(), w+": ") {
+			t.Errorf("the message does not name %s:\n%v", w, err)
+		}
+	}
+}
+
+// migrate applies the steps of its table in order and stamps the version.
+func TestMigrateAppliesStepsInOrder(t *testing.T) {
+	var applied []int
+	step := func(from int) migration {
+		return func(top *node) error {
+			applied = append(applied, from)
+			top.fields["step"] = &node{kind: numberNode, text: "x"}
+			return nil
+		}
+	}
+	table := map[int]migration{1: step(1), 2: step(2), 3: step(3)}
+	top := &node{kind: objectNode, fields: map[string]*node{"version": {kind: numberNode, text: "1"}}}
+	if err := migrate(top, 1, 4, table); err != nil {
+		t.Fatal(err)
+	}
+	if len(applied) != 3 || applied[0] != 1 || applied[1] != 2 || applied[2] != 3 {
+		t.Errorf("steps applied %v, want [1 2 3]", applied)
+	}
+	if v := top.fields["version"].text; v != "4" {
+		t.Errorf("version after migrating is %s, want 4", v)
+	}
+
+	applied = nil
+	delete(table, 2)
+	err := migrate(top, 1, 4, table)
+	if err == nil || !strings.Contains(err.Error(), "reads versions 3 to 4") {
+		t.Errorf("migrating from a version the table does not reach: %v", err)
+	}
+	if len(applied) != 0 {
+		t.Errorf("steps %v ran before the missing one was found", applied)
+	}
+}
