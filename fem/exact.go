@@ -1,31 +1,362 @@
 package fem
 
-import "errors"
+import (
+	"math"
+	"sort"
+)
 
-// Exact is the closed-form solution of the same model.
-// STUB: the exact-solution helper replaces this file.
-type Exact struct{}
+// Exact is the closed-form solution of a model. Between key points (the ends,
+// segment breaks, supports, point loads and distributed-load break points) the
+// section is constant and every load is linear in x, so EA·u″ = −p makes the
+// axial displacement a cubic and EI·w⁗ = q makes the deflection a quintic.
+// SolveExact finds the integration constants and the support reactions from
+// one small dense system per problem (bar, beam) whose size grows with the
+// number of stretches and supports, not with any mesh.
+type Exact struct {
+	keys      []float64 // key points in increasing order: keys[0] = 0, last = L
+	stretches []exactStretch
+	reactions []Reaction
+}
 
-// SolveExact integrates the governing equations in closed form.
+// exactStretch is the part of the member between two neighbouring key points.
+type exactStretch struct {
+	start, length float64 // m
+	area, fibre   float64 // A (m²) and c (m) of its segment
+	secondMoment  float64 // I, m⁴
+	thermalStrain float64 // α·ΔT
+	bar, beam     stretchSolution
+}
+
+// stretchSolution is y(t) = Σ coeff[k]·t^k on one stretch, with the local
+// coordinate t = (x − start)/length in [0, 1]: the bar's u or the beam's w, m.
+// Working in t keeps all unknowns in metres whatever the stretch length.
+type stretchSolution struct {
+	stiffness float64 // EA (N) for the bar, EI (N·m²) for the beam
+	// offset is added to the first section action: −EA·α·ΔT turns EA·u' into N.
+	offset float64
+	// coeff holds the homogeneous part (order terms, solved for) followed by
+	// the particular part of a linear load (two terms, known).
+	coeff []float64
+}
+
+// odeProblem is one of the two decoupled problems, written so that bar and
+// beam share the assembly. Its section actions are
+// T_i = sign_i·stiffness·y^(order−1−i) (+ offset for i = 0), each paired with
+// the motion y^(i) = dofs[i], and at every point T_i(right) − T_i(left) equals
+// minus the external action there (point load, rigid reaction, spring force).
+type odeProblem struct {
+	order int
+	dofs  []Dof
+	signs []float64
+}
+
+var (
+	// Bar: T_0 = N = EA·(u' − αΔT), and N jumps by −P under an axial force P.
+	exactBar = odeProblem{order: 2, dofs: []Dof{Axial}, signs: []float64{1}}
+	// Beam: T_0 = −V = −EI·w''' (V jumps by +P under an upward force P) and
+	// T_1 = M = EI·w'' (M jumps by −C under a counter-clockwise moment C).
+	exactBeam = odeProblem{order: 4, dofs: []Dof{Transverse, Rotation}, signs: []float64{-1, 1}}
+)
+
+// keyPoint gathers what acts at one key point.
+type keyPoint struct {
+	load   [3]float64 // point loads by Dof: N, N, N·m
+	spring [3]float64 // summed spring stiffness by Dof: N/m, N/m, N·m/rad
+	rigid  []restraint
+}
+
+// restraint is one rigidly held motion of a support.
+type restraint struct {
+	support    int // index into Model.Supports
+	dof        Dof
+	settlement float64
+}
+
+// maxCondition bounds the condition number of the equilibrated system; above
+// it the integration constants would carry too few correct digits.
+const maxCondition = 1e13
+
+// SolveExact integrates the governing equations of m in closed form.
 func SolveExact(m *Model) (*Exact, error) {
-	return nil, errors.New("fem: exact solution not yet written")
+	if err := m.Validate(); err != nil {
+		return nil, err
+	}
+	if err := checkMechanism(m); err != nil {
+		return nil, err
+	}
+	e := &Exact{keys: keyPoints(m)}
+	points := make([]keyPoint, len(e.keys))
+	for i, s := range m.Supports {
+		k := &points[e.keyIndex(s.X)]
+		for d := Axial; d <= Rotation; d++ {
+			switch {
+			case s.Kind.Restrains(d):
+				k.rigid = append(k.rigid, restraint{support: i, dof: d, settlement: s.Settlement[d]})
+			case s.Kind == Spring:
+				k.spring[d] += s.Stiffness[d]
+			}
+		}
+	}
+	for _, p := range m.PointLoads {
+		k := &points[e.keyIndex(p.X)]
+		k.load[Axial] += p.Axial
+		k.load[Transverse] += p.Transverse
+		k.load[Rotation] += p.Moment
+	}
+	e.stretches = make([]exactStretch, len(e.keys)-1)
+	for j := range e.stretches {
+		e.stretches[j] = newStretch(m, e.keys[j], e.keys[j+1])
+	}
+	e.reactions = make([]Reaction, len(m.Supports))
+	for i, s := range m.Supports {
+		e.reactions[i] = Reaction{Support: i, X: s.X}
+	}
+	for _, p := range []odeProblem{exactBar, exactBeam} {
+		if err := e.solveProblem(p, points); err != nil {
+			return nil, err
+		}
+	}
+	e.addSpringReactions(m)
+	return e, nil
 }
 
-// At evaluates the exact fields at x.
-func (e *Exact) At(x float64, side Side) Fields { return Fields{X: x} }
-
-// Reactions returns the exact support reactions.
-func (e *Exact) Reactions() []Reaction { return nil }
-
-// ErrorNorms measure how far a finite element solution is from the exact one.
-type ErrorNorms struct {
-	MaxDeflection     float64 // max |w_h − w| over the member, m
-	MaxAxial          float64 // max |u_h − u|, m
-	MaxStress         float64 // max |σ_h − σ| of the combined stress, Pa
-	MaxStressRelative float64 // MaxStress / max |σ|
-	RelativeL2        float64 // ‖(u_h,w_h) − (u,w)‖₂ / ‖(u,w)‖₂
-	RelativeEnergy    float64 // energy norm of the error / energy norm of the exact solution
+// newStretch sets up the stretch [a, b] with its section and the particular
+// solution of its (linear) loads.
+func newStretch(m *Model, a, b float64) exactStretch {
+	seg := m.Segments[m.SegmentAt(0.5*(a+b))]
+	sec, mat := seg.Section, seg.Material
+	s := exactStretch{
+		start: a, length: b - a,
+		area: sec.Area, fibre: sec.FibreDistance, secondMoment: sec.SecondMoment,
+		thermalStrain: mat.ThermalExpansion * m.TemperatureChange,
+	}
+	ea, ei := mat.Elastic*sec.Area, mat.Elastic*sec.SecondMoment
+	weight := mat.Density * sec.Area // kg/m
+	var axial, transverse [2]float64
+	for j := range axial {
+		axial[j] = weight * m.Gravity[0]
+		transverse[j] = weight * m.Gravity[1]
+	}
+	for _, dl := range m.DistributedLoad {
+		l0, l1 := loadOnStretch(dl.Points, a, b)
+		if dl.Direction == Axial {
+			axial[0], axial[1] = axial[0]+l0, axial[1]+l1
+		} else {
+			transverse[0], transverse[1] = transverse[0]+l0, transverse[1]+l1
+		}
+	}
+	// EA·u'' = −p and EI·w'''' = q.
+	s.bar = newStretchSolution(exactBar.order, ea, s.length, -axial[0], -axial[1])
+	s.bar.offset = -ea * s.thermalStrain
+	s.beam = newStretchSolution(exactBeam.order, ei, s.length, transverse[0], transverse[1])
+	return s
 }
 
-// Compare measures the error of s against e.
-func Compare(s *Solution, e *Exact) ErrorNorms { return ErrorNorms{} }
+// newStretchSolution holds the particular solution of
+// stiffness·y^(order) = load, with the load going linearly from l0 to l1
+// over a stretch of length h: in t, y^(order) = h^order·load/stiffness.
+func newStretchSolution(order int, stiffness, h, l0, l1 float64) stretchSolution {
+	c := make([]float64, order+2)
+	scale := math.Pow(h, float64(order)) / stiffness
+	c[order] = scale * l0 / fallingFactorial(order, order)
+	c[order+1] = scale * (l1 - l0) / fallingFactorial(order+1, order+1)
+	return stretchSolution{stiffness: stiffness, coeff: c}
+}
+
+// loadOnStretch is the intensity of a piecewise-linear load at both ends of
+// the stretch [a, b], on which the load is linear (its break points are key points).
+func loadOnStretch(pts []LoadPoint, a, b float64) (float64, float64) {
+	mid := 0.5 * (a + b)
+	for i := 0; i+1 < len(pts); i++ {
+		p, q := pts[i], pts[i+1]
+		if p.X <= mid && mid <= q.X && q.X > p.X {
+			slope := (q.Intensity - p.Intensity) / (q.X - p.X)
+			return p.Intensity + slope*(a-p.X), p.Intensity + slope*(b-p.X)
+		}
+	}
+	return 0, 0
+}
+
+// keyIndex returns the index of the key point nearest to x.
+func (e *Exact) keyIndex(x float64) int {
+	i := sort.SearchFloat64s(e.keys, x)
+	if i == len(e.keys) || (i > 0 && x-e.keys[i-1] < e.keys[i]-x) {
+		return i - 1
+	}
+	return i
+}
+
+// solveProblem assembles and solves the bar or the beam equations: per
+// stretch the homogeneous constants, per rigid restraint its reaction.
+func (e *Exact) solveProblem(p odeProblem, points []keyPoint) error {
+	nStretch := len(e.stretches)
+	var held []restraint
+	for _, k := range points {
+		for _, r := range k.rigid {
+			if p.index(r.dof) >= 0 {
+				held = append(held, r)
+			}
+		}
+	}
+	n := p.order*nStretch + len(held)
+	sys := newDenseSystem(n)
+	sol := func(j int) *stretchSolution {
+		if p.order == exactBar.order {
+			return &e.stretches[j].bar
+		}
+		return &e.stretches[j].beam
+	}
+	// term adds scale·y^(d) of stretch j at t to the current row.
+	term := func(j, d int, t, scale float64) {
+		s := sol(j)
+		f := scale / math.Pow(e.stretches[j].length, float64(d))
+		for k := range s.coeff {
+			v := f * monomialDerivative(k, d, t)
+			if k < p.order {
+				sys.a.Set(sys.row, j*p.order+k, sys.a.At(sys.row, j*p.order+k)+v)
+			} else {
+				sys.b[sys.row] -= v * s.coeff[k]
+			}
+		}
+	}
+	// action adds scale·T_i of stretch j at t to the current row.
+	action := func(j, i int, t, scale float64) {
+		s := sol(j)
+		term(j, p.order-1-i, t, scale*p.signs[i]*s.stiffness)
+		if i == 0 {
+			sys.b[sys.row] -= scale * s.offset
+		}
+	}
+	next := 0 // index into held
+	for k, kp := range points {
+		// The motion at a key point is read from the stretch on its right,
+		// or on its left at x = L.
+		side, t := k, 0.0
+		if k == nStretch {
+			side, t = k-1, 1.0
+		}
+		for i, d := range p.dofs {
+			if k > 0 && k < nStretch {
+				term(k, i, 0, 1)
+				term(k-1, i, 1, -1)
+				sys.row++
+			}
+			if k < nStretch {
+				action(k, i, 0, 1)
+			}
+			if k > 0 {
+				action(k-1, i, 1, -1)
+			}
+			sys.b[sys.row] -= kp.load[d]
+			term(side, i, t, -kp.spring[d])
+			first := next
+			for _, r := range kp.rigid {
+				if r.dof == d {
+					sys.a.Set(sys.row, p.order*nStretch+next, 1)
+					next++
+				}
+			}
+			sys.row++
+			for q := first; q < next; q++ {
+				term(side, i, t, 1)
+				sys.b[sys.row] += held[q].settlement
+				sys.row++
+			}
+		}
+	}
+	x, err := sys.solve()
+	if err != nil {
+		return err
+	}
+	for j := 0; j < nStretch; j++ {
+		copy(sol(j).coeff, x[j*p.order:(j+1)*p.order])
+	}
+	for q, r := range held {
+		e.reactions[r.support].Force[r.dof] = x[p.order*nStretch+q]
+	}
+	return nil
+}
+
+// index returns the position of d among the problem's motions, or −1.
+func (p odeProblem) index(d Dof) int {
+	for i, pd := range p.dofs {
+		if pd == d {
+			return i
+		}
+	}
+	return -1
+}
+
+// addSpringReactions adds the force −k·y each spring exerts on the member.
+func (e *Exact) addSpringReactions(m *Model) {
+	for i, s := range m.Supports {
+		if s.Kind != Spring {
+			continue
+		}
+		f := e.At(s.X, Right)
+		motion := [3]float64{f.AxialDisplacement, f.Deflection, f.Rotation}
+		for d := range motion {
+			e.reactions[i].Force[d] -= s.Stiffness[d] * motion[d]
+		}
+	}
+}
+
+// Reactions returns the force each support exerts on the member, in the order
+// of Model.Supports: rigid reactions plus spring forces.
+func (e *Exact) Reactions() []Reaction {
+	return append([]Reaction(nil), e.reactions...)
+}
+
+// At evaluates the exact fields at x. At a point where a field jumps, side
+// picks the limit; x is clamped to the member, and at its ends the side
+// outside gives the value just inside.
+func (e *Exact) At(x float64, side Side) Fields {
+	j, t := e.locate(x, side)
+	s := &e.stretches[j]
+	h := s.length
+	f := Fields{
+		X:                 s.start + t*h,
+		AxialDisplacement: derivativeAt(s.bar.coeff, 0, t),
+		Deflection:        derivativeAt(s.beam.coeff, 0, t),
+		Rotation:          derivativeAt(s.beam.coeff, 1, t) / h,
+		AxialForce:        s.bar.stiffness*derivativeAt(s.bar.coeff, 1, t)/h + s.bar.offset,
+		ShearForce:        s.beam.stiffness * derivativeAt(s.beam.coeff, 3, t) / (h * h * h),
+		BendingMoment:     s.beam.stiffness * derivativeAt(s.beam.coeff, 2, t) / (h * h),
+	}
+	f.AxialStress = f.AxialForce / s.area
+	f.BendingStress = f.BendingMoment * s.fibre / s.secondMoment
+	f.CombinedStress = extremeFibreStress(f.AxialStress, f.BendingStress)
+	return f
+}
+
+// extremeFibreStress is the extreme-fibre stress N/A ± M·c/I of larger magnitude.
+func extremeFibreStress(axial, bending float64) float64 {
+	bottom, top := axial+bending, axial-bending
+	if math.Abs(top) > math.Abs(bottom) {
+		return top
+	}
+	return bottom
+}
+
+// locate finds the stretch and local coordinate t for x seen from side.
+func (e *Exact) locate(x float64, side Side) (int, float64) {
+	last := len(e.stretches) - 1
+	length := e.keys[last+1]
+	x = math.Max(0, math.Min(length, x))
+	k := e.keyIndex(x)
+	if math.Abs(x-e.keys[k]) <= mergeTolerance*length {
+		switch {
+		case k == 0:
+			return 0, 0
+		case k == last+1 || side == Left:
+			return k - 1, 1
+		default:
+			return k, 0
+		}
+	}
+	j := k
+	if x < e.keys[k] {
+		j = k - 1
+	}
+	return j, (x - e.stretches[j].start) / e.stretches[j].length
+}
