@@ -1,26 +1,392 @@
 package fem
 
-import "errors"
+import (
+	"errors"
+	"fmt"
+	"math"
+	"slices"
+)
 
 // Solution is the finite element answer for one model.
-// STUB: the fem core helper replaces this file with the real solver.
 type Solution struct {
-	Model        Model
+	Model        Model // a copy of the solved model
 	Mesh         Mesh
 	Displacement [][3]float64 // per node of Mesh.X: u (m), w (m), θ (rad)
-	Reactions    []Reaction
-	StrainEnergy float64 // J
+	Reactions    []Reaction   // one per support, in the order of Model.Supports
+	StrainEnergy float64      // energy stored in the member (springs excluded), J
 	Equilibrium  Equilibrium
-	Condition    float64 // estimated 1-norm condition number of the stiffness matrix (largest of bar and beam)
-	Warnings     []string
+	// Condition is the estimated 1-norm condition number of the bar or beam
+	// stiffness matrix, whichever is larger, after symmetric scaling to a unit
+	// diagonal (the scaling does not change the factorization's accuracy but
+	// removes the artificial spread between deflection and rotation rows).
+	Condition float64
+	Warnings  []string
+
+	elements []elementData
+	barOrder ElementOrder
+	bar      []float64 // all bar unknowns, including quadratic middle nodes
+	beam     []float64 // w, θ per node
 }
 
-// Solve meshes, assembles and solves the model.
-func Solve(m *Model) (*Solution, error) { return nil, errors.New("fem: solver not yet written") }
+// conditionLimit is the condition number beyond which results are flagged:
+// about 1e-4 of relative accuracy is left in float64 (common practice).
+const conditionLimit = 1e12
 
-// At evaluates the finite element fields at x.
-func (s *Solution) At(x float64, side Side) Fields { return Fields{X: x} }
+// MechanismError says the supports leave a rigid-body motion free.
+type MechanismError struct {
+	Motion  string // "axial", "transverse" or "rotation"
+	Message string
+}
 
-// Sample returns the fields at n+1 evenly spaced points inside every element
-// (both ends included), in order along the member.
-func (s *Solution) Sample(n int) []Fields { return nil }
+func (e *MechanismError) Error() string { return e.Message }
+
+// Solve validates, meshes, assembles and solves the model.
+func Solve(m *Model) (*Solution, error) {
+	mesh, err := BuildMesh(m)
+	if err != nil {
+		return nil, err
+	}
+	return SolveOnMesh(m, mesh)
+}
+
+// SolveOnMesh solves the model on a given mesh, which must hold a node at
+// every key point (BuildMesh and MeshFromNodes make such meshes).
+func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
+	if err := m.Validate(); err != nil {
+		return nil, err
+	}
+	if err := checkMesh(m, mesh); err != nil {
+		return nil, err
+	}
+	if err := checkMechanism(m); err != nil {
+		return nil, err
+	}
+	s := &Solution{Model: copyModel(m), Mesh: mesh, barOrder: m.Mesh.BarOrder}
+	if s.barOrder == 0 {
+		s.barOrder = LinearBar
+	}
+	s.elements = elementTable(m, mesh)
+	problems := []system{barSystem{s.barOrder}, beamSystem{}}
+	s.Reactions = make([]Reaction, len(m.Supports))
+	for i, sup := range m.Supports {
+		s.Reactions[i] = Reaction{Support: i, X: sup.X}
+	}
+	for _, p := range problems {
+		u, cond, err := s.solveOne(p)
+		if err != nil {
+			return nil, err
+		}
+		s.Condition = max(s.Condition, cond)
+		if cond > conditionLimit {
+			s.Warnings = append(s.Warnings, fmt.Sprintf("the %s stiffness matrix is ill-conditioned (estimated condition number %.2g): results may be unreliable; use fewer elements or avoid extreme stiffness contrasts", p.name(), cond))
+		}
+		if p.motions()[0] == Axial {
+			s.bar = u
+		} else {
+			s.beam = u
+		}
+	}
+	s.Displacement = make([][3]float64, len(mesh.X))
+	bp := barSystem{s.barOrder}
+	for i := range mesh.X {
+		s.Displacement[i] = [3]float64{s.bar[bp.nodeDof(i, 0)], s.beam[2*i], s.beam[2*i+1]}
+	}
+	for e := range s.elements {
+		bo, nb := bp.element(e)
+		s.StrainEnergy += s.elements[e].strainEnergy(s.barOrder, s.bar[bo:bo+nb], s.beam[2*e:2*e+4])
+	}
+	s.Equilibrium = equilibrium(m, s.Reactions)
+	return s, nil
+}
+
+// system is one of the two independent problems on the mesh.
+type system interface {
+	name() string
+	motions() []Dof // the nodal motions this problem owns, in node order
+	size(elements int) (n, halfBandwidth int)
+	nodeDof(node, motion int) int
+	// element returns the first unknown of element e and how many it has;
+	// an element's unknowns are consecutive.
+	element(e int) (first, count int)
+	local(d *elementData) (localMatrix, localVector)
+}
+
+type barSystem struct{ order ElementOrder }
+
+func (barSystem) name() string               { return "bar" }
+func (barSystem) motions() []Dof             { return []Dof{Axial} }
+func (p barSystem) stride() int              { return p.order.nodes() - 1 }
+func (p barSystem) size(ne int) (int, int)   { return ne*p.stride() + 1, p.stride() }
+func (p barSystem) nodeDof(node, _ int) int  { return node * p.stride() }
+func (p barSystem) element(e int) (int, int) { return e * p.stride(), p.order.nodes() }
+func (p barSystem) local(d *elementData) (localMatrix, localVector) {
+	return d.barStiffness(p.order), d.barLoads(p.order)
+}
+
+type beamSystem struct{}
+
+func (beamSystem) name() string                 { return "beam" }
+func (beamSystem) motions() []Dof               { return []Dof{Transverse, Rotation} }
+func (beamSystem) size(ne int) (int, int)       { return 2*ne + 2, 3 }
+func (beamSystem) nodeDof(node, motion int) int { return 2*node + motion }
+func (beamSystem) element(e int) (int, int)     { return 2 * e, 4 }
+func (beamSystem) local(d *elementData) (localMatrix, localVector) {
+	return d.beamStiffness(), d.beamLoads()
+}
+
+// solveOne assembles and solves one problem, fills its part of the
+// reactions and returns the unknowns and the condition estimate.
+func (s *Solution) solveOne(p system) ([]float64, float64, error) {
+	m, mesh := &s.Model, s.Mesh
+	n, kb := p.size(len(s.elements))
+	a := NewSymBand(n, kb)
+	rhs := make([]float64, n)
+	for e := range s.elements {
+		first, count := p.element(e)
+		k, f := p.local(&s.elements[e])
+		for i := range count {
+			rhs[first+i] += f[i]
+			for j := i; j < count; j++ {
+				a.add(first+i, first+j, k[i][j])
+			}
+		}
+	}
+	point := make([]float64, n) // point loads, kept apart for the reactions
+	for _, pl := range m.PointLoads {
+		node := nearest(mesh.X, pl.X)
+		for mi, d := range p.motions() {
+			point[p.nodeDof(node, mi)] += pl.component(d)
+		}
+	}
+	for i, v := range point {
+		rhs[i] += v
+	}
+	type prescribed struct {
+		dof   int
+		value float64
+	}
+	var fixed []prescribed
+	for _, sup := range m.Supports {
+		node := nearest(mesh.X, sup.X)
+		for mi, d := range p.motions() {
+			dof := p.nodeDof(node, mi)
+			switch {
+			case sup.Kind == Spring:
+				a.add(dof, dof, sup.Stiffness[d])
+			case sup.Kind.Restrains(d):
+				fixed = append(fixed, prescribed{dof, sup.Settlement[d]})
+			}
+		}
+	}
+	// Prescribed motions keep the band: the column times the value moves to
+	// the right-hand side, row and column are cleared, and the diagonal keeps
+	// its own value so the scale of the matrix is not disturbed.
+	isFixed := make([]bool, n)
+	for _, c := range fixed {
+		isFixed[c.dof] = true
+	}
+	for _, c := range fixed {
+		for j := max(0, c.dof-kb); j <= min(n-1, c.dof+kb); j++ {
+			if j == c.dof {
+				continue
+			}
+			i, jj := min(j, c.dof), max(j, c.dof)
+			idx := i*(kb+1) + jj - i
+			if !isFixed[j] {
+				rhs[j] -= a.Data[idx] * c.value
+			}
+			a.Data[idx] = 0
+		}
+	}
+	for _, c := range fixed {
+		rhs[c.dof] = a.Data[c.dof*(kb+1)] * c.value
+	}
+	var f BandLDL
+	if err := f.Factorize(a); err != nil {
+		var pe *PivotError
+		if errors.As(err, &pe) {
+			return nil, 0, s.pivotMessage(p, pe)
+		}
+		return nil, 0, err
+	}
+	u := make([]float64, n)
+	if err := f.SolveTo(u, rhs); err != nil {
+		return nil, 0, err
+	}
+	scale := make([]float64, n)
+	for i := range scale {
+		scale[i] = 1 / math.Sqrt(a.Data[i*(kb+1)])
+	}
+	cond := f.Cond(a, scale)
+	s.reactions(p, u, point)
+	return u, cond, nil
+}
+
+// pivotMessage turns a failed pivot into a message that names the place.
+func (s *Solution) pivotMessage(p system, pe *PivotError) error {
+	x := s.Mesh.X[len(s.Mesh.X)-1]
+	for node := range s.Mesh.X {
+		if p.nodeDof(node, 0) >= pe.Row {
+			x = s.Mesh.X[node]
+			break
+		}
+	}
+	return fmt.Errorf("the %s stiffness matrix is singular to working precision near x = %s (pivot %.3g of diagonal %.3g): check for very soft springs or very stiff contrasts, or use fewer elements", p.name(), fmtMetres(x), pe.Pivot, pe.Diagonal)
+}
+
+// reactions fills this problem's components of the support reactions:
+// rigid restraints from the element end forces K·u − f at the node less the
+// point loads there, springs as −k·displacement.
+func (s *Solution) reactions(p system, u, point []float64) {
+	mesh := s.Mesh
+	for r, sup := range s.Model.Supports {
+		node := nearest(mesh.X, sup.X)
+		for mi, d := range p.motions() {
+			dof := p.nodeDof(node, mi)
+			switch {
+			case sup.Kind == Spring:
+				s.Reactions[r].Force[d] = -sup.Stiffness[d] * u[dof]
+			case sup.Kind.Restrains(d):
+				force := -point[dof]
+				for e := max(node-1, 0); e <= min(node, len(s.elements)-1); e++ {
+					first, count := p.element(e)
+					if dof < first || dof >= first+count {
+						continue
+					}
+					k, f := p.local(&s.elements[e])
+					a := dof - first
+					force -= f[a]
+					for b := range count {
+						force += k[a][b] * u[first+b]
+					}
+				}
+				s.Reactions[r].Force[d] = force
+			}
+		}
+	}
+}
+
+// component returns the part of the point load that acts on motion d.
+func (p PointLoad) component(d Dof) float64 {
+	return [3]float64{p.Axial, p.Transverse, p.Moment}[d]
+}
+
+// elementTable gathers each element's properties and the loads along it.
+func elementTable(m *Model, mesh Mesh) []elementData {
+	els := make([]elementData, len(mesh.Elements))
+	for i, e := range mesh.Elements {
+		seg := m.Segments[e.Segment]
+		sec, mat := seg.Section, seg.Material
+		weight := mat.Density * sec.Area // kg/m
+		els[i] = elementData{
+			start:            e.Start,
+			length:           e.End - e.Start,
+			axialRigidity:    mat.Elastic * sec.Area,
+			flexuralRigidity: mat.Elastic * sec.SecondMoment,
+			area:             sec.Area,
+			secondMoment:     sec.SecondMoment,
+			fibre:            sec.FibreDistance,
+			thermalStrain:    mat.ThermalExpansion * m.TemperatureChange,
+			axialLoad:        [2]float64{weight * m.Gravity[0], weight * m.Gravity[0]},
+			transverseLoad:   [2]float64{weight * m.Gravity[1], weight * m.Gravity[1]},
+		}
+	}
+	for _, d := range m.DistributedLoad {
+		for k := 1; k < len(d.Points); k++ {
+			a, b := d.Points[k-1], d.Points[k]
+			slope := (b.Intensity - a.Intensity) / (b.X - a.X)
+			for e := nearest(mesh.X, a.X); e < nearest(mesh.X, b.X); e++ {
+				target := &els[e].axialLoad
+				if d.Direction == Transverse {
+					target = &els[e].transverseLoad
+				}
+				target[0] += a.Intensity + slope*(mesh.X[e]-a.X)
+				target[1] += a.Intensity + slope*(mesh.X[e+1]-a.X)
+			}
+		}
+	}
+	return els
+}
+
+// equilibrium sums the applied loads (exact integrals of the model's loads)
+// and the reactions: forces along x and y, and moments about x = 0.
+func equilibrium(m *Model, reactions []Reaction) Equilibrium {
+	var q Equilibrium
+	for _, p := range m.PointLoads {
+		q.Applied[0] += p.Axial
+		q.Applied[1] += p.Transverse
+		q.Applied[2] += p.Moment + p.X*p.Transverse
+	}
+	for _, d := range m.DistributedLoad {
+		for k := 1; k < len(d.Points); k++ {
+			a, b := d.Points[k-1], d.Points[k]
+			h := b.X - a.X
+			force := 0.5 * h * (a.Intensity + b.Intensity)
+			if d.Direction == Axial {
+				q.Applied[0] += force
+				continue
+			}
+			q.Applied[1] += force
+			// ∫x·q dx for q linear on [a, b].
+			q.Applied[2] += h / 6 * (a.Intensity*(2*a.X+b.X) + b.Intensity*(a.X+2*b.X))
+		}
+	}
+	for _, seg := range m.Segments {
+		w := seg.Material.Density * seg.Section.Area * (seg.End - seg.Start)
+		q.Applied[0] += w * m.Gravity[0]
+		q.Applied[1] += w * m.Gravity[1]
+		q.Applied[2] += w * m.Gravity[1] * 0.5 * (seg.Start + seg.End)
+	}
+	for _, r := range reactions {
+		q.Reactions[0] += r.Force[0]
+		q.Reactions[1] += r.Force[1]
+		q.Reactions[2] += r.Force[2] + r.X*r.Force[1]
+	}
+	for i := range q.Residual {
+		q.Residual[i] = q.Applied[i] + q.Reactions[i]
+	}
+	return q
+}
+
+// copyModel copies m so the solution does not change when the caller edits its model.
+func copyModel(m *Model) Model {
+	c := *m
+	c.Segments = slices.Clone(m.Segments)
+	c.Supports = slices.Clone(m.Supports)
+	c.PointLoads = slices.Clone(m.PointLoads)
+	c.DistributedLoad = make([]DistributedLoad, len(m.DistributedLoad))
+	for i, d := range m.DistributedLoad {
+		c.DistributedLoad[i] = DistributedLoad{Direction: d.Direction, Points: slices.Clone(d.Points)}
+	}
+	return c
+}
+
+// checkMechanism looks for rigid-body motions the supports leave free. The
+// bar's rigid motion is u = a; the beam's are w = a + b·x, which one point of
+// deflection restraint, or one rotation restraint, cannot both stop.
+func checkMechanism(m *Model) error {
+	restrains := func(s Support, d Dof) bool {
+		if s.Kind == Spring {
+			return s.Stiffness[d] > 0
+		}
+		return s.Kind.Restrains(d)
+	}
+	var axial, rotation bool
+	var deflection []float64
+	for _, s := range m.Supports {
+		axial = axial || restrains(s, Axial)
+		rotation = rotation || restrains(s, Rotation)
+		if restrains(s, Transverse) {
+			deflection = append(deflection, s.X)
+		}
+	}
+	switch {
+	case !axial:
+		return &MechanismError{Motion: "axial", Message: "the member can slide along its axis: add an axial restraint (pinned, fixed, axial or spring support)"}
+	case len(deflection) == 0:
+		return &MechanismError{Motion: "transverse", Message: "the member can move sideways: add a support that restrains deflection"}
+	case len(deflection) == 1 && !rotation:
+		return &MechanismError{Motion: "rotation", Message: fmt.Sprintf("the member can rotate about the support at x = %s: add a second support or fix one end", fmtMetres(deflection[0]))}
+	}
+	return nil
+}

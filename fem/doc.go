@@ -1,0 +1,52 @@
+// Package fem analyses one straight structural member by finite elements.
+//
+// # What it solves
+//
+// The member runs along x from 0 to L. Two independent one-dimensional
+// problems are solved on it:
+//
+//	bar:  −(EA (u' − αΔT))' = p      axial displacement u(x), axial load p per length
+//	beam:  (EI w'')''       = q      deflection w(x), transverse load q per length
+//
+// with N = EA(u' − αΔT) (tension positive), M = EI·w” (sagging positive),
+// V = dM/dx and dV/dx = q. Point forces and moments, support settlements,
+// elastic springs, a uniform change of temperature and self-weight
+// (ρ·A·g per length, from Model.Gravity) are the loads.
+//
+// # Sign conventions
+//
+// x runs along the member, y points up. Axial displacement u and axial loads
+// are positive along +x; deflection w and transverse loads are positive up, so
+// gravity loads are negative; rotations θ = dw/dx and moments are positive
+// counter-clockwise. A simply supported beam under a downward uniform load
+// therefore sags (M > 0) and has V > 0 at its left end. Bending stress is
+// reported as M·c/I, positive for tension in the bottom fibre under sagging.
+//
+// # Units
+//
+// Everything inside fem is SI: m, N, Pa, kg/m³, K, rad. Conversion to other
+// units happens only at the edges of the program (input fields, files,
+// display); a quantity's unit is stated beside its declaration.
+//
+// # How the pieces fit
+//
+//	Model ─Validate→ BuildMesh (or MeshFromNodes) → elements → banded assembly
+//	      → BandLDL factorization → displacements → reactions, equilibrium,
+//	      strain energy → Solution.At / Solution.Sample (fields)
+//
+// Validate reports every problem of a model at once (*ValidationError).
+// BuildMesh places nodes at every key point (ends, segment breaks, supports,
+// point loads, load break points) and divides the stretches between them
+// uniformly; MeshFromNodes takes caller-chosen nodes, for adaptive
+// refinement. Bars use 2-node linear or 3-node quadratic elements, beams
+// 2-node Hermite cubics; consistent nodal loads are integrated exactly by
+// Gauss–Legendre quadrature. The bar and the beam are assembled in banded
+// symmetric storage (SymBand) and solved separately by BandLDL, whose cost is
+// linear in the number of elements. Before factorizing, the supports are
+// checked for rigid-body motions (*MechanismError); after factorizing, the
+// condition number is estimated in linear time and a warning is attached to
+// the Solution when results may be unreliable.
+//
+// Results are an aid for checking: a qualified engineer must review them, and
+// local codes and licensed practice govern any design decision.
+package fem

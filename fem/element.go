@@ -1,0 +1,142 @@
+package fem
+
+import "math"
+
+// localMatrix and localVector hold one element's stiffness and loads; bars use
+// the leading 2×2 or 3×3 part.
+type (
+	localMatrix [4][4]float64
+	localVector [4]float64
+)
+
+// elementData is what an element needs from the model: geometry, section,
+// material and the loads acting along it. Loads are linear within an element
+// because every break point of a distributed load is a node.
+type elementData struct {
+	start, length    float64    // m
+	axialRigidity    float64    // EA, N
+	flexuralRigidity float64    // EI, N·m²
+	area             float64    // m²
+	secondMoment     float64    // m⁴
+	fibre            float64    // c, m
+	thermalStrain    float64    // α·ΔT, free strain
+	axialLoad        [2]float64 // p at start and end, N/m
+	transverseLoad   [2]float64 // q at start and end, N/m
+}
+
+// gauss3 is the 3-point Gauss–Legendre rule on [0, 1], exact for polynomials
+// of degree 5: enough for a cubic shape function times a linear load.
+var gauss3 = [3]struct{ xi, w float64 }{
+	{0.5 - 0.5*math.Sqrt(0.6), 5.0 / 18},
+	{0.5, 8.0 / 18},
+	{0.5 + 0.5*math.Sqrt(0.6), 5.0 / 18},
+}
+
+// nodes returns the number of bar nodes of an element of that order.
+func (o ElementOrder) nodes() int {
+	if o == QuadraticBar {
+		return 3
+	}
+	return 2
+}
+
+// barShape returns the bar shape functions and their x-derivatives at ξ ∈ [0, 1]
+// for an element of length h. Quadratic nodes are ordered start, middle, end.
+func barShape(order ElementOrder, xi, h float64) (n, dn [3]float64) {
+	if order == QuadraticBar {
+		n = [3]float64{(1 - xi) * (1 - 2*xi), 4 * xi * (1 - xi), xi * (2*xi - 1)}
+		dn = [3]float64{(4*xi - 3) / h, (4 - 8*xi) / h, (4*xi - 1) / h}
+		return n, dn
+	}
+	return [3]float64{1 - xi, xi}, [3]float64{-1 / h, 1 / h}
+}
+
+// hermite returns the cubic Hermite shape functions for (w1, θ1, w2, θ2) at
+// ξ ∈ [0, 1] for an element of length h, with their first, second and third
+// x-derivatives.
+func hermite(xi, h float64) (n, d1, d2, d3 [4]float64) {
+	x2, x3 := xi*xi, xi*xi*xi
+	n = [4]float64{1 - 3*x2 + 2*x3, h * (xi - 2*x2 + x3), 3*x2 - 2*x3, h * (x3 - x2)}
+	d1 = [4]float64{(6*x2 - 6*xi) / h, 1 - 4*xi + 3*x2, (6*xi - 6*x2) / h, 3*x2 - 2*xi}
+	d2 = [4]float64{(12*xi - 6) / (h * h), (6*xi - 4) / h, (6 - 12*xi) / (h * h), (6*xi - 2) / h}
+	d3 = [4]float64{12 / (h * h * h), 6 / (h * h), -12 / (h * h * h), 6 / (h * h)}
+	return n, d1, d2, d3
+}
+
+// barStiffness is the closed-form bar stiffness: EA/h·[1 −1; −1 1] for the
+// linear element, EA/(3h)·[7 −8 1; −8 16 −8; 1 −8 7] for the quadratic one
+// (Hughes, The Finite Element Method, ch. 1 and 3, from memory).
+func (d *elementData) barStiffness(order ElementOrder) localMatrix {
+	c := d.axialRigidity / d.length
+	if order == QuadraticBar {
+		c /= 3
+		return localMatrix{{7 * c, -8 * c, c}, {-8 * c, 16 * c, -8 * c}, {c, -8 * c, 7 * c}}
+	}
+	return localMatrix{{c, -c}, {-c, c}}
+}
+
+// barLoads is the consistent nodal load vector ∫N·p dx plus the thermal
+// forces ∫N'·EA·αΔT dx = EA·αΔT·(N(end) − N(start)).
+func (d *elementData) barLoads(order ElementOrder) localVector {
+	var f localVector
+	h := d.length
+	for _, g := range gauss3 {
+		n, _ := barShape(order, g.xi, h)
+		p := d.axialLoad[0] + (d.axialLoad[1]-d.axialLoad[0])*g.xi
+		for a := range order.nodes() {
+			f[a] += g.w * h * n[a] * p
+		}
+	}
+	thermal := d.axialRigidity * d.thermalStrain
+	f[0] -= thermal
+	f[order.nodes()-1] += thermal
+	return f
+}
+
+// beamStiffness is the closed-form Hermite beam stiffness for (w1, θ1, w2, θ2)
+// (Hughes, The Finite Element Method; Strang & Fix, ch. 1; from memory).
+func (d *elementData) beamStiffness() localMatrix {
+	h := d.length
+	c := d.flexuralRigidity / (h * h * h)
+	return localMatrix{
+		{12 * c, 6 * h * c, -12 * c, 6 * h * c},
+		{6 * h * c, 4 * h * h * c, -6 * h * c, 2 * h * h * c},
+		{-12 * c, -6 * h * c, 12 * c, -6 * h * c},
+		{6 * h * c, 2 * h * h * c, -6 * h * c, 4 * h * h * c},
+	}
+}
+
+// beamLoads is the consistent nodal load vector ∫N·q dx.
+func (d *elementData) beamLoads() localVector {
+	var f localVector
+	h := d.length
+	for _, g := range gauss3 {
+		n, _, _, _ := hermite(g.xi, h)
+		q := d.transverseLoad[0] + (d.transverseLoad[1]-d.transverseLoad[0])*g.xi
+		for a := range n {
+			f[a] += g.w * h * n[a] * q
+		}
+	}
+	return f
+}
+
+// strainEnergy is ½∫EA(u' − αΔT)² dx + ½∫EI·w”² dx over the element, given
+// its bar and beam nodal values; both integrands are at most quadratic.
+func (d *elementData) strainEnergy(order ElementOrder, bar []float64, beam []float64) float64 {
+	h := d.length
+	e := 0.0
+	for _, g := range gauss3 {
+		_, dn := barShape(order, g.xi, h)
+		strain := -d.thermalStrain
+		for a := range order.nodes() {
+			strain += dn[a] * bar[a]
+		}
+		_, _, d2, _ := hermite(g.xi, h)
+		curvature := 0.0
+		for a := range d2 {
+			curvature += d2[a] * beam[a]
+		}
+		e += g.w * h * (d.axialRigidity*strain*strain + d.flexuralRigidity*curvature*curvature)
+	}
+	return 0.5 * e
+}

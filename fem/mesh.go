@@ -1,0 +1,164 @@
+package fem
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"slices"
+	"sort"
+)
+
+// keyPoints returns the sorted points that must be nodes: the ends, segment
+// breaks, supports, point loads and every break point of the distributed
+// loads, with points closer than mergeTolerance·L taken as one.
+func keyPoints(m *Model) []float64 {
+	pts := []float64{0, m.Length()}
+	for _, s := range m.Segments {
+		pts = append(pts, s.Start, s.End)
+	}
+	for _, s := range m.Supports {
+		pts = append(pts, s.X)
+	}
+	for _, p := range m.PointLoads {
+		pts = append(pts, p.X)
+	}
+	for _, d := range m.DistributedLoad {
+		for _, p := range d.Points {
+			pts = append(pts, p.X)
+		}
+	}
+	return mergeSorted(pts, m.Length())
+}
+
+// mergeSorted sorts pts, clamps them to [0, L] and keeps one point of each
+// cluster closer than mergeTolerance·L. pts must hold 0 and L, which are kept exactly.
+func mergeSorted(pts []float64, L float64) []float64 {
+	tol := mergeTolerance * L
+	for i, x := range pts {
+		pts[i] = min(max(x, 0), L)
+	}
+	slices.Sort(pts)
+	out := pts[:1]
+	for _, x := range pts[1:] {
+		last := len(out) - 1
+		if x-out[last] > tol {
+			out = append(out, x)
+		} else if x == L && last > 0 {
+			out[last] = L
+		}
+	}
+	return out
+}
+
+// BuildMesh divides the member as Model.Mesh asks: nodes at every key point,
+// then each stretch between key points is divided uniformly into
+// max(1, round(Elements·len/L)) elements, or ceil(len/MaxElementLength) when
+// that is finer. With neither setting each stretch is one element.
+func BuildMesh(m *Model) (Mesh, error) {
+	if err := m.Validate(); err != nil {
+		return Mesh{}, err
+	}
+	keys := keyPoints(m)
+	L := m.Length()
+	x := make([]float64, 0, len(keys)+max(m.Mesh.Elements, 0))
+	x = append(x, keys[0])
+	for i := 1; i < len(keys); i++ {
+		a, b := keys[i-1], keys[i]
+		span := b - a
+		n := 1
+		if m.Mesh.Elements > 0 {
+			n = max(n, int(math.Round(float64(m.Mesh.Elements)*span/L)))
+		}
+		if h := m.Mesh.MaxElementLength; h > 0 {
+			// The factor keeps a stretch of exactly k·h from getting k+1 elements by round-off.
+			n = max(n, int(math.Ceil(span/h*(1-1e-12))))
+		}
+		for j := 1; j < n; j++ {
+			x = append(x, a+span*float64(j)/float64(n))
+		}
+		x = append(x, b)
+	}
+	return meshOn(m, x), nil
+}
+
+// MeshFromNodes builds a mesh on caller-chosen node positions x (increasing,
+// within [0, L]); key points missing from x are added, so the result can be
+// solved with SolveOnMesh. It is meant for adaptive refinement.
+func MeshFromNodes(m *Model, x []float64) (Mesh, error) {
+	if err := m.Validate(); err != nil {
+		return Mesh{}, err
+	}
+	L := m.Length()
+	tol := mergeTolerance * L
+	for i, xi := range x {
+		switch {
+		case !isFinite(xi):
+			return Mesh{}, fmt.Errorf("fem: node %d has position %v: give finite positions", i+1, xi)
+		case xi < -tol || xi > L+tol:
+			return Mesh{}, fmt.Errorf("fem: node %d at x = %s lies outside the member (length %s)", i+1, fmtMetres(xi), fmtMetres(L))
+		case i > 0 && xi < x[i-1]:
+			return Mesh{}, fmt.Errorf("fem: node %d (x = %s) lies before node %d (x = %s): list nodes in increasing x", i+1, fmtMetres(xi), i, fmtMetres(x[i-1]))
+		}
+	}
+	keys := keyPoints(m)
+	all := make([]float64, 0, len(x)+len(keys))
+	all = append(all, keys...)
+	// Nodes that nearly coincide with a key point give way to it.
+	for _, xi := range x {
+		k := nearest(keys, xi)
+		if math.Abs(keys[k]-xi) > tol {
+			all = append(all, xi)
+		}
+	}
+	return meshOn(m, mergeSorted(all, L)), nil
+}
+
+// meshOn makes the elements between consecutive nodes x.
+func meshOn(m *Model, x []float64) Mesh {
+	els := make([]Element, len(x)-1)
+	seg := 0
+	for i := range els {
+		mid := 0.5 * (x[i] + x[i+1])
+		for seg < len(m.Segments)-1 && mid >= m.Segments[seg].End {
+			seg++
+		}
+		els[i] = Element{Segment: seg, Start: x[i], End: x[i+1], First: i}
+	}
+	return Mesh{X: x, Elements: els}
+}
+
+// nearest returns the index of the value of sorted xs closest to x.
+func nearest(xs []float64, x float64) int {
+	i := sort.SearchFloat64s(xs, x)
+	switch {
+	case i == len(xs):
+		return i - 1
+	case i > 0 && x-xs[i-1] < xs[i]-x:
+		return i - 1
+	}
+	return i
+}
+
+// checkMesh makes sure a caller-supplied mesh is one meshOn could have made.
+func checkMesh(m *Model, mesh Mesh) error {
+	n := len(mesh.Elements)
+	if n == 0 || len(mesh.X) != n+1 {
+		return errors.New("fem: the mesh has no elements or its node list does not match them: build it with BuildMesh or MeshFromNodes")
+	}
+	L := m.Length()
+	tol := mergeTolerance * L
+	if math.Abs(mesh.X[0]) > tol || math.Abs(mesh.X[n]-L) > tol {
+		return fmt.Errorf("fem: the mesh spans x = %s to %s but the member is %s long: rebuild the mesh", fmtMetres(mesh.X[0]), fmtMetres(mesh.X[n]), fmtMetres(L))
+	}
+	for i, e := range mesh.Elements {
+		if e.First != i || e.Start != mesh.X[i] || e.End != mesh.X[i+1] || !(e.End > e.Start) || e.Segment < 0 || e.Segment >= len(m.Segments) {
+			return fmt.Errorf("fem: element %d of the mesh is inconsistent (x = %s to %s): rebuild the mesh", i+1, fmtMetres(e.Start), fmtMetres(e.End))
+		}
+	}
+	for _, k := range keyPoints(m) {
+		if math.Abs(mesh.X[nearest(mesh.X, k)]-k) > tol {
+			return fmt.Errorf("fem: the mesh has no node at the key point x = %s: build it with BuildMesh or MeshFromNodes", fmtMetres(k))
+		}
+	}
+	return nil
+}
