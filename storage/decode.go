@@ -28,14 +28,19 @@ func (p Problem) String() string {
 
 // LoadError lists everything wrong with a file that could not be loaded.
 type LoadError struct {
+	File     string // the file's path, when it was read from one
 	Problems []Problem
 }
 
 func (e *LoadError) Error() string {
-	if len(e.Problems) == 1 {
-		return "the file cannot be opened: " + e.Problems[0].String()
+	what := "the file"
+	if e.File != "" {
+		what = e.File
 	}
-	return fmt.Sprintf("the file cannot be opened (%d problems):\n", len(e.Problems)) + listProblems(e.Problems)
+	if len(e.Problems) == 1 {
+		return what + " cannot be opened: " + e.Problems[0].String()
+	}
+	return fmt.Sprintf("%s cannot be opened (%d problems):\n", what, len(e.Problems)) + listProblems(e.Problems)
 }
 
 func listProblems(problems []Problem) string {
