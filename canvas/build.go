@@ -1,0 +1,281 @@
+package canvas
+
+import (
+	"image/color"
+	"math"
+	"sort"
+	"strings"
+
+	"stave/fem"
+	"stave/fem/units"
+)
+
+// Colours, chosen to read on white paper and on the white drawing area.
+var (
+	inkColour       = rgb(0x1f, 0x23, 0x28)
+	supportColour   = rgb(0x3a, 0x4a, 0x58)
+	hatchColour     = rgb(0x7a, 0x86, 0x90)
+	loadColour      = rgb(0xb0, 0x2a, 0x1e)
+	deformedColour  = rgb(0x19, 0x5f, 0xc0)
+	dimensionColour = rgb(0x50, 0x55, 0x5a)
+	faintColour     = rgb(0x8a, 0x90, 0x96)
+	selectedColour  = rgb(0xe0, 0x85, 0x00)
+	problemColour   = rgb(0xc0, 0x1c, 0x1c)
+	exactColour     = rgb(0x10, 0x10, 0x10)
+	gapColour       = rgba(0xd0, 0x1e, 0x6a, 0x70)
+	highlightColour = rgba(0xff, 0xc4, 0x2e, 0x50)
+	hoverColour     = rgb(0x40, 0x40, 0x40)
+	white           = rgb(0xff, 0xff, 0xff)
+)
+
+func rgb(r, g, b uint8) color.NRGBA                { return color.NRGBA{r, g, b, 0xff} }
+func rgba(r, g, b, a uint8) color.NRGBA            { return color.NRGBA{r, g, b, a} }
+func withAlpha(c color.NRGBA, a uint8) color.NRGBA { c.A = a; return c }
+
+// Sizes in pixels.
+const (
+	memberWidth   = 5
+	labelSize     = 11
+	smallSize     = 10
+	titleSize     = 12
+	problemSize   = 15
+	supportHeight = 26
+	arrowLength   = 44
+)
+
+// rect is a text or symbol box used to keep labels from overlapping.
+type rect struct{ x0, y0, x1, y1 float32 }
+
+func (r rect) overlaps(o rect) bool {
+	return r.x0 < o.x1 && o.x0 < r.x1 && r.y0 < o.y1 && o.y0 < r.y1
+}
+
+// builder accumulates a scene.
+type builder struct {
+	in       Input
+	v        View
+	s        *Scene
+	u        units.System
+	occupied []rect
+}
+
+// Build lays out the drawing of in for the view v.
+func Build(in Input, v View) *Scene {
+	b := &builder{in: in, v: v, u: in.Units, s: &Scene{Width: v.Width, Height: v.Height}}
+	if b.u.Name == "" {
+		b.u = units.SI
+	}
+	if in.Model == nil {
+		return b.s
+	}
+	lay := layout(in.Layers, v)
+	b.s.SketchBottom = lay.sketchBottom
+	b.s.MemberY = lay.memberY
+	if in.Highlight != [2]float64{} {
+		x0, x1 := b.sx(in.Highlight[0]), b.sx(in.Highlight[1])
+		if x1-x0 < 3 {
+			x0, x1 = x0-1.5, x1+1.5
+		}
+		b.rectangle(x0, 0, x1, v.Height, highlightColour)
+	}
+	b.sketch(lay)
+	b.diagrams(lay)
+	if in.Hovering {
+		x := b.sx(in.HoverX)
+		b.s.Items = append(b.s.Items, Item{Kind: Polyline, Points: []Point{{x, lay.top}, {x, v.Height}},
+			Stroke: hoverColour, StrokeWidth: 1, Dash: true})
+	}
+	return b.s
+}
+
+// layoutBands is the vertical layout of a scene.
+type layoutBands struct {
+	top, sketchBottom, memberY float32
+	strips                     []stripPlace
+}
+
+type stripPlace struct {
+	diagram     diagram
+	top, bottom float32
+}
+
+func layout(l Layers, v View) layoutBands {
+	var on []diagram
+	for _, d := range diagramsList {
+		if d.enabled(l) {
+			on = append(on, d)
+		}
+	}
+	top := v.PanY
+	sketch := v.Height
+	if len(on) > 0 {
+		sketch = max(230, 0.38*v.Height)
+		if v.Height-sketch < float32(len(on))*90 {
+			sketch = max(200, v.Height-float32(len(on))*90)
+		}
+	}
+	lay := layoutBands{top: top, sketchBottom: top + sketch}
+	// Below the member: support symbols, reactions and two dimension lines.
+	lay.memberY = top + max(sketch*0.5, sketch-120)
+	if len(on) > 0 {
+		stripH := max(90, (v.Height-sketch)/float32(len(on)))
+		y := lay.sketchBottom
+		for _, d := range on {
+			lay.strips = append(lay.strips, stripPlace{diagram: d, top: y, bottom: y + stripH})
+			y += stripH
+		}
+	}
+	return lay
+}
+
+func (b *builder) sx(x float64) float32 { return b.v.ToScreenX(x) }
+
+// clampX keeps far off-screen coordinates finite and small for the renderers.
+func (b *builder) clampX(px float32) float32 { return max(-50, min(b.v.Width+50, px)) }
+
+func (b *builder) line(c color.NRGBA, width float32, pts ...Point) {
+	b.s.Items = append(b.s.Items, Item{Kind: Polyline, Points: pts, Stroke: c, StrokeWidth: width})
+}
+
+func (b *builder) polygon(fill, stroke color.NRGBA, width float32, pts ...Point) {
+	b.s.Items = append(b.s.Items, Item{Kind: Polygon, Points: pts, Fill: fill, Stroke: stroke, StrokeWidth: width})
+}
+
+func (b *builder) rectangle(x0, y0, x1, y1 float32, fill color.NRGBA) {
+	b.polygon(fill, color.NRGBA{}, 0, Point{x0, y0}, Point{x1, y0}, Point{x1, y1}, Point{x0, y1})
+}
+
+func (b *builder) circle(c Point, r float32, fill, stroke color.NRGBA, width float32) {
+	b.s.Items = append(b.s.Items, Item{Kind: Circle, Center: c, Radius: r, Fill: fill, Stroke: stroke, StrokeWidth: width})
+}
+
+// text places s with its anchor point at (x, y); ax and ay are the anchor's
+// fraction of the box (0 = left/top, 0.5 = centre, 1 = right/bottom). The box
+// is kept inside the scene width. It returns the box.
+func (b *builder) text(s string, x, y float32, size float32, ax, ay float32, c color.NRGBA, bold bool) rect {
+	w := textWidth(s, size, bold)
+	h := textHeight(size)
+	left := x - ax*w
+	left = max(2, min(b.v.Width-w-2, left))
+	top := y - ay*h
+	b.s.Items = append(b.s.Items, Item{Kind: Text, Text: s, At: Point{left, top}, Size: size, Bold: bold, Stroke: c, Width: w})
+	return rect{left, top, left + w, top + h}
+}
+
+// label places s at the first candidate anchor whose box does not overlap an
+// earlier label; if none fits it is left out unless force is set.
+func (b *builder) label(s string, size float32, c color.NRGBA, bold, force bool, cands ...labelSpot) (rect, bool) {
+	w, h := textWidth(s, size, bold), textHeight(size)
+	for i, cand := range cands {
+		left := max(2, min(b.v.Width-w-2, cand.x-cand.ax*w))
+		r := rect{left, cand.y - cand.ay*h, left + w, cand.y - cand.ay*h + h}
+		free := true
+		for _, o := range b.occupied {
+			if r.overlaps(o) {
+				free = false
+				break
+			}
+		}
+		if free || (force && i == len(cands)-1) {
+			b.occupied = append(b.occupied, r)
+			return b.text(s, cand.x, cand.y, size, cand.ax, cand.ay, c, bold), true
+		}
+	}
+	return rect{}, false
+}
+
+type labelSpot struct{ x, y, ax, ay float32 }
+
+func (b *builder) occupy(r rect) { b.occupied = append(b.occupied, r) }
+
+func (b *builder) handle(ref Ref, radius float32, pts ...Point) {
+	b.s.Handles = append(b.s.Handles, Handle{Ref: ref, Points: pts, Radius: radius})
+}
+
+func (b *builder) colourFor(ref Ref, normal color.NRGBA) color.NRGBA {
+	if b.in.Selected == ref {
+		return selectedColour
+	}
+	return normal
+}
+
+// arrow draws a shaft from tail to tip with a filled head at tip.
+func (b *builder) arrow(tail, tip Point, c color.NRGBA, width, head float32) {
+	dx, dy := tip.X-tail.X, tip.Y-tail.Y
+	l := float32(math.Hypot(float64(dx), float64(dy)))
+	if l == 0 {
+		return
+	}
+	ux, uy := dx/l, dy/l
+	base := Point{tip.X - ux*head, tip.Y - uy*head}
+	b.line(c, width, tail, base)
+	half := head * 0.45
+	b.polygon(c, color.NRGBA{}, 0, tip, Point{base.X - uy*half, base.Y + ux*half}, Point{base.X + uy*half, base.Y - ux*half})
+}
+
+// format writes an SI value in the chosen unit system.
+func (b *builder) format(q units.Quantity, v float64) string { return b.u.Format(q, v) }
+
+// wrap breaks s into lines no wider than w pixels.
+func wrap(s string, size float32, bold bool, w float32) []string {
+	var lines []string
+	cur := ""
+	for _, word := range strings.Fields(s) {
+		try := word
+		if cur != "" {
+			try = cur + " " + word
+		}
+		if cur != "" && textWidth(try, size, bold) > w {
+			lines = append(lines, cur)
+			cur = word
+			continue
+		}
+		cur = try
+	}
+	if cur != "" {
+		lines = append(lines, cur)
+	}
+	return lines
+}
+
+// niceBelow is the largest 1, 2 or 5 × 10ⁿ not above v (v > 0).
+func niceBelow(v float64) float64 {
+	if v <= 0 || math.IsInf(v, 0) || math.IsNaN(v) {
+		return 1
+	}
+	p := math.Pow(10, math.Floor(math.Log10(v)))
+	for _, m := range []float64{5, 2, 1} {
+		if m*p <= v*(1+1e-12) {
+			return m * p
+		}
+	}
+	return p
+}
+
+// keyPoints are the positions where results may jump or kink: ends, segment
+// breaks, supports, point loads and load vertices, sorted and unique.
+func keyPoints(m *fem.Model) []float64 {
+	xs := []float64{0, m.Length()}
+	for _, s := range m.Segments {
+		xs = append(xs, s.Start, s.End)
+	}
+	for _, s := range m.Supports {
+		xs = append(xs, s.X)
+	}
+	for _, p := range m.PointLoads {
+		xs = append(xs, p.X)
+	}
+	for _, d := range m.DistributedLoad {
+		for _, p := range d.Points {
+			xs = append(xs, p.X)
+		}
+	}
+	sort.Float64s(xs)
+	out := xs[:0]
+	for i, x := range xs {
+		if i == 0 || x != out[len(out)-1] {
+			out = append(out, x)
+		}
+	}
+	return out
+}

@@ -1,0 +1,248 @@
+package canvas
+
+import (
+	"fmt"
+	"image/color"
+	"math"
+
+	"stave/fem"
+	"stave/fem/units"
+)
+
+// diagram is one result strip under the sketch.
+type diagram struct {
+	quantity
+	colour color.NRGBA
+	// downPositive draws positive values below the axis (the bending moment
+	// on the tension side under sagging).
+	downPositive bool
+	legend       string
+	enabled      func(Layers) bool
+}
+
+var diagramsList = []diagram{
+	{quantity{"Axial force", "N", units.Force, func(f fem.Fields) float64 { return f.AxialForce }},
+		rgb(0x2e, 0x7d, 0x32), false, "tension + drawn above", func(l Layers) bool { return l.AxialForce }},
+	{quantity{"Shear force", "V", units.Force, func(f fem.Fields) float64 { return f.ShearForce }},
+		rgb(0x15, 0x65, 0xc0), false, "V = dM/dx, + drawn above", func(l Layers) bool { return l.ShearForce }},
+	{quantity{"Bending moment", "M", units.Moment, func(f fem.Fields) float64 { return f.BendingMoment }},
+		rgb(0x7b, 0x1f, 0xa2), true, "sagging + drawn below (tension side)", func(l Layers) bool { return l.BendingMoment }},
+	{quantity{"Combined stress", "σ", units.Stress, func(f fem.Fields) float64 { return f.CombinedStress }},
+		rgb(0xa8, 0x4a, 0x00), false, "tension + drawn above", func(l Layers) bool { return l.Stress }},
+}
+
+// diagrams draws every switched-on strip. All strips are sampled in one walk
+// over the elements.
+func (b *builder) diagrams(lay layoutBands) {
+	if len(lay.strips) == 0 {
+		return
+	}
+	qs := make([]quantity, len(lay.strips))
+	for i, st := range lay.strips {
+		qs[i] = st.diagram.quantity
+	}
+	var fe, ex []*curve
+	var gaps []extreme
+	if b.in.Solution != nil {
+		fe = sampleCurves(b.in.Solution, b.v, qs)
+	}
+	if b.in.Exact != nil && b.in.Layers.ExactBand {
+		ex, gaps = exactCurves(b.in.Exact, b.in.Solution, b.in.Model, b.v, qs)
+	}
+	for i, st := range lay.strips {
+		var f, e *curve
+		var gap extreme
+		if fe != nil {
+			f = fe[i]
+		}
+		if ex != nil {
+			e, gap = ex[i], gaps[i]
+		}
+		b.strip(st, f, e, gap)
+	}
+}
+
+// strip draws one diagram: axis, FE area and curve, exact curve and the gap
+// between them, extremes and the largest gap labelled.
+func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme) {
+	d := st.diagram
+	title := fmt.Sprintf("%s %s [%s]", d.name, d.symbol, b.u.Unit(d.unit).Symbol)
+	b.text(title, 8, st.top+5, titleSize, 0, 0, d.colour, true)
+	tr := rect{0, st.top, 16 + textWidth(title, titleSize, true), st.top + 22}
+	b.occupy(tr)
+	legend := d.legend
+	if ex != nil {
+		legend += "; thin black: exact, shaded: gap to FE"
+	}
+	b.occupy(b.text(legend, tr.x1+8, st.top+7, smallSize, 0, 0, faintColour, false))
+	if b.in.Unreliable {
+		b.occupy(b.text("UNRELIABLE", b.v.Width-8, st.top+5, labelSize, 1, 0, problemColour, true))
+	}
+	defer b.line(faintColour, 0.75, Point{0, st.bottom}, Point{b.v.Width, st.bottom})
+
+	lo, hi := 0.0, 0.0
+	for _, c := range []*curve{fe, ex} {
+		if c != nil && c.n > 0 {
+			lo, hi = min(lo, c.lo.value), max(hi, c.hi.value)
+		}
+	}
+	innerTop, innerBottom := st.top+30, st.bottom-20
+	if d.unit == units.Stress {
+		innerBottom -= 12 // room for the colour band
+	}
+	span := hi - lo
+	if span == 0 || fe == nil && ex == nil {
+		span = 1
+	}
+	upp := span / float64(innerBottom-innerTop) // SI per pixel
+	toY := func(v float64) float32 {
+		if d.downPositive {
+			return innerTop + float32((v-lo)/upp)
+		}
+		return innerTop + float32((hi-v)/upp)
+	}
+	baseY := toY(0)
+	sign := 1.0
+	if d.downPositive {
+		sign = -1
+	}
+	b.s.Strips = append(b.s.Strips, Strip{Name: d.name, Top: st.top, Bottom: st.bottom, BaselineY: baseY, UnitsPerPixel: sign * upp})
+	l := b.in.Model.Length()
+	b.line(faintColour, 1, Point{b.clampX(b.sx(0)), baseY}, Point{b.clampX(b.sx(l)), baseY})
+	if fe == nil && ex == nil {
+		b.text("no results", b.v.Width/2, (st.top+st.bottom)/2, labelSize, 0.5, 0.5, faintColour, false)
+		return
+	}
+	var fePts, exPts []Point
+	if fe != nil && fe.n > 0 {
+		fePts = fe.points(toY)
+		area := append(append([]Point{}, fePts...), Point{fePts[len(fePts)-1].X, baseY}, Point{fePts[0].X, baseY})
+		b.polygon(withAlpha(d.colour, 0x38), color.NRGBA{}, 0, area...)
+	}
+	if ex != nil && ex.n > 0 {
+		exPts = ex.points(toY)
+	}
+	if len(fePts) > 0 && len(exPts) > 0 {
+		band := append([]Point{}, fePts...)
+		for k := len(exPts) - 1; k >= 0; k-- {
+			band = append(band, exPts[k])
+		}
+		b.polygon(gapColour, color.NRGBA{}, 0, band...)
+	}
+	if len(fePts) > 0 {
+		b.line(d.colour, 1.8, fePts...)
+	}
+	if len(exPts) > 0 {
+		b.line(exactColour, 0.9, exPts...)
+	}
+	if d.unit == units.Stress {
+		b.stressBand(fe, ex, innerBottom+6)
+	}
+	main := fe
+	if main == nil || main.n == 0 {
+		main = ex
+	}
+	b.extremes(main, d, toY)
+	if ex != nil && fe != nil && gap.value != 0 && math.Abs(gap.value) > 1e-9*max(math.Abs(lo), math.Abs(hi)) {
+		gx := b.sx(gap.x)
+		b.circle(Point{gx, toY(ex.valueNear(gap.x))}, 3, color.NRGBA{}, gapColour, 1.5)
+		s := fmt.Sprintf("largest gap %s at %s", b.format(d.unit, math.Abs(gap.value)), b.format(units.Position, gap.x))
+		b.label(s, smallSize, rgb(0xa0, 0x10, 0x50), false, true,
+			labelSpot{gx, st.bottom - 3, 0.5, 1}, labelSpot{b.v.Width - 8, st.bottom - 3, 1, 1})
+	}
+}
+
+// valueNear is the curve value in the column holding x (its last sample).
+func (c *curve) valueNear(x float64) float64 {
+	k := int(math.Floor(float64(c.v.ToScreenX(x)))) + 1
+	k = max(0, min(len(c.cols)-1, k))
+	return c.cols[k].last.value
+}
+
+// extremes labels the highest and lowest values with their positions.
+func (b *builder) extremes(c *curve, d diagram, toY func(float64) float32) {
+	if c == nil || c.n == 0 {
+		return
+	}
+	for _, e := range []extreme{c.hi, c.lo} {
+		if e.value == 0 || (e == c.lo && c.lo == c.hi) {
+			continue
+		}
+		px, py := b.sx(e.x), toY(e.value)
+		b.circle(Point{px, py}, 2.5, d.colour, color.NRGBA{}, 0)
+		// Outside the curve: above a peak drawn upward, below one drawn downward.
+		up := (e.value > 0) != d.downPositive
+		ay, dy := float32(1), float32(-4)
+		if !up {
+			ay, dy = 0, 4
+		}
+		s := fmt.Sprintf("%s at %s", b.format(d.unit, e.value), b.format(units.Position, e.x))
+		b.label(s, smallSize, inkColour, false, true,
+			labelSpot{px, py + dy, 0.5, ay}, labelSpot{px + 6, py + dy, 0, ay}, labelSpot{px - 6, py + dy, 1, ay},
+			labelSpot{px + 6, py, 0, 0.5})
+	}
+}
+
+// stressColour maps a stress to a diverging colour: compression violet,
+// tension orange, zero white; t is stress over the largest magnitude.
+func stressColour(t float64) color.NRGBA {
+	t = max(-1, min(1, t))
+	tension := [3]float64{0xd9, 0x5f, 0x0e}
+	compression := [3]float64{0x4b, 0x3b, 0x9a}
+	end := tension
+	if t < 0 {
+		end, t = compression, -t
+	}
+	mix := func(k int) uint8 { return uint8(math.Round(255 + (end[k]-255)*t)) }
+	return color.NRGBA{mix(0), mix(1), mix(2), 0xff}
+}
+
+// stressBand draws a colour strip along the member, one run per colour step,
+// and its legend.
+func (b *builder) stressBand(fe, ex *curve, y float32) {
+	c := fe
+	if c == nil || c.n == 0 {
+		c = ex
+	}
+	peak := math.Abs(c.peakAbs().value)
+	if peak == 0 {
+		return
+	}
+	const steps = 16
+	step := func(col column) int {
+		v := col.hi.value
+		if -col.lo.value > v {
+			v = col.lo.value
+		}
+		return int(math.Round(v / peak * steps))
+	}
+	runStart, runStep := -1, 0
+	flush := func(end int) {
+		if runStart >= 0 {
+			x0, x1 := float32(runStart-1), float32(end-1)
+			b.rectangle(x0, y, x1, y+8, stressColour(float64(runStep)/steps))
+		}
+	}
+	for k, col := range c.cols {
+		if col.n == 0 {
+			flush(k)
+			runStart = -1
+			continue
+		}
+		if s := step(col); runStart < 0 || s != runStep {
+			flush(k)
+			runStart, runStep = k, s
+		}
+	}
+	flush(len(c.cols))
+	// Legend: compression on the left, tension on the right.
+	lx := b.v.Width - 190
+	ly := y - 22
+	for k := -steps; k < steps; k++ {
+		x := lx + float32(k+steps)*4
+		b.rectangle(x, ly, x+4, ly+8, stressColour((float64(k)+0.5)/steps))
+	}
+	b.text(b.format(units.Stress, -peak), lx-3, ly+4, smallSize-1, 1, 0.5, faintColour, false)
+	b.text(b.format(units.Stress, peak), lx+4*2*steps+3, ly+4, smallSize-1, 0, 0.5, faintColour, false)
+	b.occupy(rect{lx - 60, ly - 2, b.v.Width, ly + 10})
+}

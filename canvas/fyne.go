@@ -1,0 +1,46 @@
+package canvas
+
+import (
+	"image"
+	"image/color"
+
+	"fyne.io/fyne/v2"
+	fynecanvas "fyne.io/fyne/v2/canvas"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/vgimg"
+)
+
+// Draw turns the scene into Fyne canvas objects placed in scene pixels: one
+// raster holding every line, polygon and circle (painted by the same code as
+// the PNG, at the screen's own pixel density) and one text object per label.
+// The number of objects is therefore 1 + the number of labels.
+func Draw(s *Scene) []fyne.CanvasObject {
+	r := fynecanvas.NewRaster(func(w, h int) image.Image { return rasterize(s, w, h) })
+	r.Move(fyne.NewPos(0, 0))
+	r.Resize(fyne.NewSize(s.Width, s.Height))
+	objs := []fyne.CanvasObject{r}
+	for _, it := range s.Items {
+		if it.Kind != Text {
+			continue
+		}
+		t := fynecanvas.NewText(it.Text, it.Stroke)
+		t.TextSize = it.Size
+		t.TextStyle = fyne.TextStyle{Bold: it.Bold}
+		t.Move(fyne.NewPos(it.At.X, it.At.Y))
+		t.Resize(fyne.NewSize(it.Width, textHeight(it.Size)))
+		objs = append(objs, t)
+	}
+	return objs
+}
+
+// rasterize paints the scene's shapes, without text, into a w × h image on a
+// transparent background.
+func rasterize(s *Scene, w, h int) image.Image {
+	if w <= 0 || h <= 0 || s.Width <= 0 {
+		return image.NewNRGBA(image.Rect(0, 0, 1, 1))
+	}
+	c := vgimg.NewWith(vgimg.UseWH(vg.Length(w), vg.Length(h)), vgimg.UseDPI(72), vgimg.UseBackgroundColor(color.Transparent))
+	k := float64(w) / float64(s.Width)
+	drawScene(c, s, vg.Point{Y: vg.Length(h)}, k, false)
+	return c.Image()
+}

@@ -1,0 +1,47 @@
+package canvas
+
+import (
+	"stave/fem"
+	"stave/fem/units"
+)
+
+// Layers switches optional parts of the drawing on and off.
+type Layers struct {
+	Deformed      bool // deformed shape over the member
+	AxialForce    bool // axial force diagram strip
+	ShearForce    bool // shear force diagram strip
+	BendingMoment bool // bending moment diagram strip
+	Stress        bool // combined stress strip with a colour legend
+	Nodes         bool // node ticks and the element count
+	ExactBand     bool // exact curve over each diagram and the shaded gap to it
+	Dimensions    bool // dimension lines and the scale bar
+}
+
+// DefaultLayers is what a new drawing shows.
+func DefaultLayers() Layers {
+	return Layers{Deformed: true, ShearForce: true, BendingMoment: true, ExactBand: true, Dimensions: true}
+}
+
+// Input is everything Build draws. Solution and Exact may be nil (not solved
+// yet, or the solver failed: then Problem says why).
+type Input struct {
+	Model    *fem.Model
+	Solution *fem.Solution
+	Exact    *fem.Exact
+	// Problem is a solver error, shown prominently on the drawing.
+	Problem string
+	// Unreliable marks every strip with a warning (ill-conditioned or failed checks).
+	Unreliable bool
+	Layers     Layers
+	// Magnification of deflections in the deformed shape; 0 picks one so the
+	// largest deflection is about 15% of the sketch band height.
+	Magnification float64
+	Units         units.System
+	Selected      Ref
+	// HoverX is the model x (m) of the mouse when Hovering.
+	HoverX   float64
+	Hovering bool
+	// Highlight is an x range (m) shaded across all strips, e.g. the place of a
+	// selected check; {0, 0} means none.
+	Highlight [2]float64
+}

@@ -1,0 +1,585 @@
+package canvas
+
+import (
+	"fmt"
+	"image/color"
+	"math"
+
+	"stave/fem"
+	"stave/fem/units"
+)
+
+// sketch draws the top band: member, supports, loads, deformed shape,
+// dimensions, scale bar and the problem text.
+func (b *builder) sketch(lay layoutBands) {
+	m := b.in.Model
+	y := lay.memberY
+	l := m.Length()
+	x0, x1 := b.clampX(b.sx(0)), b.clampX(b.sx(l))
+	b.text("Member, supports and loads", 8, lay.top+6, titleSize, 0, 0, inkColour, true)
+	b.occupy(rect{0, lay.top, 220, lay.top + 24})
+
+	// Supports first: their boxes keep labels away from them.
+	for i, sp := range m.Supports {
+		b.support(i, sp, y)
+	}
+	memberColour := b.colourFor(Ref{Kind: Member}, inkColour)
+	b.line(memberColour, memberWidth, Point{x0, y}, Point{x1, y})
+	b.handle(Ref{Kind: Member}, memberWidth/2, Point{x0, y}, Point{x1, y})
+	b.segments(y)
+	if b.in.Layers.Nodes && b.in.Solution != nil {
+		b.nodeTicks(y, lay.top)
+	}
+	end := Point{b.sx(l), y}
+	b.circle(end, 4, white, b.colourFor(Ref{Kind: MemberEnd}, inkColour), 1.5)
+	b.handle(Ref{Kind: MemberEnd}, 6, end)
+
+	b.distributedLoads(lay)
+	for i, p := range m.PointLoads {
+		b.pointLoad(i, p, y)
+	}
+	if b.in.Layers.Deformed && b.in.Solution != nil {
+		b.deformed(lay)
+	}
+	if b.in.Solution != nil {
+		b.reactions(y)
+	}
+	if b.in.Layers.Dimensions {
+		b.dimensions(y)
+		b.scaleBar(lay.top)
+	}
+	if b.in.Problem != "" {
+		b.problem(lay)
+	}
+	if b.in.Unreliable {
+		b.text("UNRELIABLE RESULTS: read the warnings", b.v.Width-8, lay.top+26, labelSize, 1, 0, problemColour, true)
+	}
+	b.line(faintColour, 0.75, Point{0, lay.sketchBottom}, Point{b.v.Width, lay.sketchBottom})
+}
+
+// segments marks segment breaks across the member and labels each segment.
+func (b *builder) segments(y float32) {
+	m := b.in.Model
+	for i, sg := range m.Segments {
+		if i > 0 {
+			x := b.sx(sg.Start)
+			b.line(inkColour, 1.5, Point{x - 4, y - 9}, Point{x + 4, y + 9})
+		}
+		if len(m.Segments) == 1 && sg.Material.Name == "" {
+			continue
+		}
+		name := fmt.Sprintf("S%d", i+1)
+		if sg.Material.Name != "" {
+			name += " " + sg.Material.Name
+		}
+		mid := b.sx((sg.Start + sg.End) / 2)
+		c := b.colourFor(Ref{Kind: Segment, Index: i}, faintColour)
+		if r, ok := b.label(name, smallSize, c, false, false,
+			labelSpot{mid, y + 6, 0.5, 0}, labelSpot{mid, y - 8, 0.5, 1}); ok {
+			cy := (r.y0 + r.y1) / 2
+			b.handle(Ref{Kind: Segment, Index: i}, (r.y1-r.y0)/2, Point{r.x0, cy}, Point{r.x1, cy})
+		}
+	}
+}
+
+// nodeTicks marks the mesh nodes, at most one tick per pixel column.
+func (b *builder) nodeTicks(y, top float32) {
+	mesh := b.in.Solution.Mesh
+	last := float32(math.Inf(-1))
+	for _, x := range visibleNodes(mesh.X, b.v) {
+		px := b.sx(x)
+		if px-last < 2 {
+			continue
+		}
+		last = px
+		b.line(faintColour, 1, Point{px, y - 7}, Point{px, y - 3})
+	}
+	n := len(mesh.Elements)
+	b.text(fmt.Sprintf("mesh: %d elements", n), 8, top+38, smallSize, 0, 0, faintColour, false)
+}
+
+// visibleNodes returns the node positions inside the view.
+func visibleNodes(xs []float64, v View) []float64 {
+	lo, hi := v.ToModelX(0), v.ToModelX(v.Width)
+	i := lowerBound(xs, lo)
+	j := lowerBound(xs, hi)
+	if j < len(xs) {
+		j++
+	}
+	return xs[i:j]
+}
+
+func lowerBound(xs []float64, x float64) int {
+	lo, hi := 0, len(xs)
+	for lo < hi {
+		mid := (lo + hi) / 2
+		if xs[mid] < x {
+			lo = mid + 1
+		} else {
+			hi = mid
+		}
+	}
+	return lo
+}
+
+// support draws one support symbol under (or beside) the member at its x.
+func (b *builder) support(i int, sp fem.Support, y float32) {
+	ref := Ref{Kind: Support, Index: i}
+	c := b.colourFor(ref, supportColour)
+	x := b.sx(sp.X)
+	top := y + memberWidth/2
+	// Wall-type symbols face outwards at the right end, otherwise left.
+	dir := float32(-1)
+	if sp.X >= b.in.Model.Length()/2 && sp.X > 0 {
+		dir = 1
+	}
+	switch sp.Kind {
+	case fem.Fixed:
+		b.wall(x, y, dir, c)
+	case fem.Pinned:
+		b.triangle(x, top, c)
+		b.ground(x, top+supportHeight-6, c)
+	case fem.Roller:
+		b.triangle(x, top, c)
+		base := top + supportHeight - 8
+		b.circle(Point{x - 6, base + 3.5}, 3, white, c, 1.3)
+		b.circle(Point{x + 6, base + 3.5}, 3, white, c, 1.3)
+		b.ground(x, base+7, c)
+	case fem.AxialOnly:
+		// A pin on the axis, linked to a block that slides in a transverse slot:
+		// axial motion held, deflection and rotation free.
+		b.circle(Point{x, y}, 3.5, white, c, 1.5)
+		link := x + dir*18
+		b.line(c, 1.5, Point{x + dir*3.5, y}, Point{link, y})
+		b.polygon(white, c, 1.5, Point{link, y - 5}, Point{link + dir*8, y - 5}, Point{link + dir*8, y + 5}, Point{link, y + 5})
+		b.line(c, 1.2, Point{link - dir*2, y - 16}, Point{link - dir*2, y + 16})
+		b.line(c, 1.2, Point{link + dir*10, y - 16}, Point{link + dir*10, y + 16})
+		b.hatch(link+dir*10, y-16, y+16, dir, c)
+	case fem.Guided:
+		// A plate fixed to the member riding on rollers against a wall:
+		// axial motion and rotation held, deflection free.
+		plate := x + dir*2
+		b.line(c, 3, Point{plate, y - 14}, Point{plate, y + 14})
+		b.circle(Point{plate + dir*4, y - 8}, 3, white, c, 1.3)
+		b.circle(Point{plate + dir*4, y + 8}, 3, white, c, 1.3)
+		wall := plate + dir*8
+		b.line(c, 1.5, Point{wall, y - 18}, Point{wall, y + 18})
+		b.hatch(wall, y-18, y+18, dir, c)
+	case fem.Spring:
+		b.springs(x, y, dir, sp.Stiffness, c)
+	}
+	b.handle(ref, 16, Point{x, y + 14})
+	b.occupy(rect{x - 22, y - 20, x + 22, y + supportHeight + 4})
+}
+
+func (b *builder) triangle(x, top float32, c color.NRGBA) {
+	h := float32(supportHeight - 8)
+	b.polygon(white, c, 1.5, Point{x, top}, Point{x - 10, top + h}, Point{x + 10, top + h})
+}
+
+// ground draws a base line with hatching under it.
+func (b *builder) ground(x, y float32, c color.NRGBA) {
+	b.line(c, 1.5, Point{x - 15, y}, Point{x + 15, y})
+	for k := float32(-12); k <= 12; k += 6 {
+		b.line(hatchColour, 1, Point{x + k, y}, Point{x + k - 5, y + 5})
+	}
+}
+
+// wall draws a fixed end: a wall line across the member hatched on its far side.
+func (b *builder) wall(x, y, dir float32, c color.NRGBA) {
+	b.line(c, 2.5, Point{x, y - 20}, Point{x, y + 20})
+	b.hatch(x, y-20, y+20, dir, c)
+}
+
+// hatch draws short oblique strokes on the dir side of a vertical line.
+func (b *builder) hatch(x, y0, y1, dir float32, _ color.NRGBA) {
+	for y := y0 + 3; y <= y1; y += 6 {
+		b.line(hatchColour, 1, Point{x, y}, Point{x + dir*6, y - 6})
+	}
+}
+
+// springs draws a zig-zag for each translational spring and a coil for the
+// rotational one; a zero stiffness leaves that motion free and draws nothing.
+func (b *builder) springs(x, y, dir float32, k [3]float64, c color.NRGBA) {
+	if k[fem.Transverse] != 0 {
+		top := y + memberWidth/2
+		pts := []Point{{x, top}, {x, top + 4}}
+		for i := 0; i < 6; i++ {
+			off := float32(5)
+			if i%2 == 1 {
+				off = -5
+			}
+			pts = append(pts, Point{x + off, top + 6 + float32(i)*2.5})
+		}
+		pts = append(pts, Point{x, top + 21}, Point{x, top + 24})
+		b.line(c, 1.3, pts...)
+		b.ground(x, top+24, c)
+	}
+	if k[fem.Axial] != 0 {
+		pts := []Point{{x, y}, {x + dir*4, y}}
+		for i := 0; i < 6; i++ {
+			off := float32(5)
+			if i%2 == 1 {
+				off = -5
+			}
+			pts = append(pts, Point{x + dir*(6+float32(i)*2.5), y + off})
+		}
+		pts = append(pts, Point{x + dir*21, y}, Point{x + dir*24, y})
+		b.line(c, 1.3, pts...)
+		b.line(c, 1.5, Point{x + dir*24, y - 10}, Point{x + dir*24, y + 10})
+		b.hatch(x+dir*24, y-10, y+10, dir, c)
+	}
+	if k[fem.Rotation] != 0 {
+		var pts []Point
+		for t := 0.0; t <= 4*math.Pi; t += 0.25 {
+			r := float32(2 + 1.2*t)
+			pts = append(pts, Point{x + r*float32(math.Cos(t)), y - 14 - r*float32(math.Sin(t))*0.8})
+		}
+		b.line(c, 1.2, pts...)
+	}
+}
+
+// pointLoad draws forces as arrows (transverse ones onto the member, axial
+// ones along it) and a moment as a curved arrow showing its sense.
+func (b *builder) pointLoad(i int, p fem.PointLoad, y float32) {
+	ref := Ref{Kind: PointLoad, Index: i}
+	c := b.colourFor(ref, loadColour)
+	x := b.sx(p.X)
+	var hit []Point
+	if p.Transverse != 0 {
+		if p.Transverse < 0 {
+			tip := Point{x, y - memberWidth/2 - 1}
+			tail := Point{x, tip.Y - arrowLength}
+			b.arrow(tail, tip, c, 2, 10)
+			b.pointLabel(b.format(units.Force, math.Abs(p.Transverse)), tail, 1)
+			hit = append(hit, tail, tip)
+		} else {
+			tip := Point{x, y + memberWidth/2 + 1}
+			tail := Point{x, tip.Y + arrowLength}
+			b.arrow(tail, tip, c, 2, 10)
+			b.pointLabel(b.format(units.Force, p.Transverse), tail, 0)
+			hit = append(hit, tail, tip)
+		}
+	}
+	if p.Axial != 0 {
+		dir := float32(1)
+		if p.Axial < 0 {
+			dir = -1
+		}
+		ay := y - 9
+		tail := Point{x, ay}
+		tip := Point{x + dir*arrowLength*0.8, ay}
+		b.arrow(tail, tip, c, 2, 9)
+		b.label(b.format(units.Force, math.Abs(p.Axial)), smallSize, c, false, true,
+			labelSpot{tip.X + dir*3, ay, (1 - dir) / 2, 0.5}, labelSpot{(tail.X + tip.X) / 2, ay - 4, 0.5, 1})
+		hit = append(hit, tail, tip)
+	}
+	if p.Moment != 0 {
+		b.momentArrow(Point{x, y}, 16, p.Moment > 0, c)
+		b.label(b.format(units.Moment, math.Abs(p.Moment)), smallSize, c, false, true,
+			labelSpot{x + 20, y - 18, 0, 1}, labelSpot{x - 20, y - 18, 1, 1})
+		hit = append(hit, Point{x, y - 16})
+	}
+	if len(hit) > 0 {
+		b.handle(ref, 6, hit...)
+	}
+}
+
+func (b *builder) pointLabel(s string, tail Point, ay float32) {
+	off := float32(-3)
+	if ay == 0 {
+		off = 3
+	}
+	b.label(s, smallSize, loadColour, false, true,
+		labelSpot{tail.X, tail.Y + off, 0.5, ay}, labelSpot{tail.X + 4, tail.Y + off, 0, ay}, labelSpot{tail.X - 4, tail.Y + off, 1, ay})
+}
+
+// momentArrow draws a 270° arc around c with a head at its end; the arc opens
+// downwards so the member does not hide it. ccw picks the sense.
+func (b *builder) momentArrow(c Point, r float32, ccw bool, col color.NRGBA) {
+	// Angles in the usual maths sense (counter-clockwise, y up), start at -45°.
+	start, sweep := -math.Pi/4, 1.5*math.Pi
+	if !ccw {
+		start, sweep = math.Pi*5/4, -1.5*math.Pi
+	}
+	var pts []Point
+	const n = 30
+	for k := 0; k <= n; k++ {
+		a := start + sweep*float64(k)/n
+		pts = append(pts, Point{c.X + r*float32(math.Cos(a)), c.Y - r*float32(math.Sin(a))})
+	}
+	b.line(col, 2, pts[:n-2]...)
+	b.arrow(pts[n-4], pts[n], col, 2, 8)
+}
+
+// distributedLoads draws each load as an outline with arrows under it. The
+// ordinate of a transverse load is drawn from LoadBaseY, downward loads above
+// the member; an axial load uses the same scale with its arrows along x.
+func (b *builder) distributedLoads(lay layoutBands) {
+	m := b.in.Model
+	base := lay.memberY - memberWidth/2 - 2
+	room := base - lay.top - 50
+	maxPx := max(16, min(64, room-arrowLength*0.2))
+	peak := 0.0
+	for _, d := range m.DistributedLoad {
+		for _, p := range d.Points {
+			peak = max(peak, math.Abs(p.Intensity))
+		}
+	}
+	if peak == 0 {
+		peak = 1000 // 1 kN/m per band so drags still mean something on an empty load
+	}
+	scale := peak / float64(maxPx)
+	b.s.LoadScale = scale
+	b.s.LoadBaseY = base
+	for i, d := range m.DistributedLoad {
+		if len(d.Points) < 2 {
+			continue
+		}
+		ref := Ref{Kind: DistributedLoad, Index: i}
+		selected := b.in.Selected.Kind != None && (b.in.Selected == ref ||
+			(b.in.Selected.Kind == LoadVertex && b.in.Selected.Index == i))
+		c := loadColour
+		if selected {
+			c = selectedColour
+		}
+		sign := 1.0 // screen y = base + sign·intensity/scale
+		if d.Direction == fem.Axial {
+			sign = -1
+		}
+		ordinate := func(q float64) float32 { return base + float32(sign*q/scale) }
+		outline := make([]Point, 0, len(d.Points)+2)
+		outline = append(outline, Point{b.sx(d.Points[0].X), base})
+		for _, p := range d.Points {
+			outline = append(outline, Point{b.sx(p.X), ordinate(p.Intensity)})
+		}
+		outline = append(outline, Point{b.sx(d.Points[len(d.Points)-1].X), base})
+		b.polygon(withAlpha(c, 0x22), c, 1.3, outline...)
+		b.loadArrows(d, base, ordinate, c)
+		b.handle(ref, 3, outline...)
+		// Label the largest ordinate.
+		k := 0
+		for j, p := range d.Points {
+			if math.Abs(p.Intensity) > math.Abs(d.Points[k].Intensity) {
+				k = j
+			}
+		}
+		pk := outline[k+1]
+		ay := float32(1)
+		if pk.Y > base {
+			ay = 0
+		}
+		b.label(b.format(units.LineLoad, math.Abs(d.Points[k].Intensity)), smallSize, c, false, true,
+			labelSpot{pk.X, pk.Y - 3 + 6*ay*0, 0.5, ay}, labelSpot{pk.X + 4, pk.Y - 3, 0, ay})
+		for j := range d.Points {
+			vp := outline[j+1]
+			vref := Ref{Kind: LoadVertex, Index: i, Vertex: j}
+			if selected {
+				vc := b.colourFor(vref, loadColour)
+				b.polygon(white, vc, 1.5, Point{vp.X - 4, vp.Y - 4}, Point{vp.X + 4, vp.Y - 4}, Point{vp.X + 4, vp.Y + 4}, Point{vp.X - 4, vp.Y + 4})
+			}
+			b.s.Handles = append(b.s.Handles, Handle{Ref: vref, Points: []Point{vp}, Radius: 5, PerPixel: sign * scale})
+		}
+	}
+}
+
+// loadArrows fills a load outline with arrows about every 22 pixels.
+func (b *builder) loadArrows(d fem.DistributedLoad, base float32, ordinate func(float64) float32, c color.NRGBA) {
+	x0, x1 := b.sx(d.Points[0].X), b.sx(d.Points[len(d.Points)-1].X)
+	lo, hi := max(x0, -20), min(x1, b.v.Width+20)
+	if hi <= lo {
+		return
+	}
+	n := max(1, int((hi-lo)/22))
+	for k := 0; k <= n; k++ {
+		px := lo + (hi-lo)*float32(k)/float32(n)
+		q := intensityAt(d.Points, b.v.ToModelX(px))
+		oy := ordinate(q)
+		if math.Abs(float64(oy-base)) < 5 {
+			continue
+		}
+		if d.Direction == fem.Axial {
+			dir := float32(1)
+			if q < 0 {
+				dir = -1
+			}
+			my := (oy + base) / 2
+			b.arrow(Point{px - dir*5, my}, Point{px + dir*5, my}, c, 1, 5)
+			continue
+		}
+		if q < 0 {
+			b.arrow(Point{px, oy}, Point{px, base}, c, 1, 6)
+		} else {
+			b.arrow(Point{px, base + 2*memberWidth}, Point{px, base + memberWidth + 2}, c, 1, 6)
+		}
+	}
+}
+
+// intensityAt interpolates a piecewise-linear load at x.
+func intensityAt(pts []fem.LoadPoint, x float64) float64 {
+	for j := 1; j < len(pts); j++ {
+		a, c := pts[j-1], pts[j]
+		if x <= c.X || j == len(pts)-1 {
+			if c.X == a.X {
+				return c.Intensity
+			}
+			t := max(0, min(1, (x-a.X)/(c.X-a.X)))
+			return a.Intensity + t*(c.Intensity-a.Intensity)
+		}
+	}
+	return 0
+}
+
+// problem shows the solver's complaint in the sketch band.
+func (b *builder) problem(lay layoutBands) {
+	lines := wrap(b.in.Problem, problemSize, true, b.v.Width-60)
+	h := textHeight(problemSize)
+	y := lay.top + 30
+	wmax := float32(0)
+	for _, ln := range lines {
+		wmax = max(wmax, textWidth(ln, problemSize, true))
+	}
+	cx := b.v.Width / 2
+	b.polygon(rgba(0xff, 0xee, 0xee, 0xf0), problemColour, 1.5,
+		Point{cx - wmax/2 - 10, y - 4}, Point{cx + wmax/2 + 10, y - 4},
+		Point{cx + wmax/2 + 10, y + h*float32(len(lines)) + 4}, Point{cx - wmax/2 - 10, y + h*float32(len(lines)) + 4})
+	for k, ln := range lines {
+		b.text(ln, cx, y+h*float32(k), problemSize, 0.5, 0, problemColour, true)
+	}
+}
+
+// reactions labels each support with the force it exerts.
+func (b *builder) reactions(y float32) {
+	for _, r := range b.in.Solution.Reactions {
+		x := b.sx(r.X)
+		var parts []string
+		names := [3]string{"Rx ", "Ry ", "Mr "}
+		qs := [3]units.Quantity{units.Force, units.Force, units.Moment}
+		for d := 0; d < 3; d++ {
+			if r.Force[d] != 0 && b.supportHolds(r.Support, fem.Dof(d)) {
+				parts = append(parts, names[d]+b.format(qs[d], r.Force[d]))
+			}
+		}
+		ly := y + supportHeight + 6
+		for _, p := range parts {
+			if rr, ok := b.label(p, smallSize, supportColour, false, false,
+				labelSpot{x, ly, 0.5, 0}, labelSpot{x + 24, ly, 0, 0}, labelSpot{x - 24, ly, 1, 0}); ok {
+				ly = rr.y1
+			}
+		}
+	}
+}
+
+func (b *builder) supportHolds(i int, d fem.Dof) bool {
+	if i < 0 || i >= len(b.in.Model.Supports) {
+		return true
+	}
+	sp := b.in.Model.Supports[i]
+	if sp.Kind == fem.Spring {
+		return sp.Stiffness[d] != 0
+	}
+	return sp.Kind.Restrains(d)
+}
+
+// dimensions draws a chain of dimensions between the ends and supports and,
+// when there is more than one link, the overall span below it.
+func (b *builder) dimensions(y float32) {
+	m := b.in.Model
+	l := m.Length()
+	xs := []float64{0, l}
+	for _, s := range m.Supports {
+		xs = append(xs, s.X)
+	}
+	xs = uniqueSorted(xs)
+	chainY := y + supportHeight + 44
+	for k := 1; k < len(xs); k++ {
+		b.dimension(xs[k-1], xs[k], chainY, "")
+	}
+	if len(xs) > 2 {
+		b.dimension(0, l, chainY+20, "L = ")
+	}
+}
+
+func (b *builder) dimension(xa, xb float64, y float32, prefix string) {
+	pa, pb := b.sx(xa), b.sx(xb)
+	b.line(dimensionColour, 0.8, Point{b.clampX(pa), y}, Point{b.clampX(pb), y})
+	for _, p := range []float32{pa, pb} {
+		b.line(dimensionColour, 0.8, Point{p, y - 6}, Point{p, y + 6})
+		b.line(dimensionColour, 1.4, Point{p - 3, y + 3}, Point{p + 3, y - 3})
+	}
+	s := prefix + b.format(units.Position, xb-xa)
+	if textWidth(s, smallSize, false)+6 < pb-pa {
+		b.label(s, smallSize, dimensionColour, false, true, labelSpot{(pa + pb) / 2, y - 2, 0.5, 1})
+	}
+}
+
+func uniqueSorted(xs []float64) []float64 {
+	for i := 1; i < len(xs); i++ {
+		for j := i; j > 0 && xs[j] < xs[j-1]; j-- {
+			xs[j], xs[j-1] = xs[j-1], xs[j]
+		}
+	}
+	out := xs[:0]
+	for _, x := range xs {
+		if len(out) == 0 || x != out[len(out)-1] {
+			out = append(out, x)
+		}
+	}
+	return out
+}
+
+// scaleBar draws a bar of a round length in display units at the top right.
+func (b *builder) scaleBar(top float32) {
+	perSI := b.u.ToDisplay(units.Position, 1) // display units per metre
+	if perSI <= 0 {
+		return
+	}
+	target := 110 / b.v.Scale * perSI // display units in ~110 px
+	length := niceBelow(target) / perSI
+	px := float32(length * b.v.Scale)
+	x1 := b.v.Width - 14
+	x0 := x1 - px
+	y := top + 26
+	b.line(inkColour, 2, Point{x0, y}, Point{x1, y})
+	b.line(inkColour, 1, Point{x0, y - 4}, Point{x0, y + 4})
+	b.line(inkColour, 1, Point{x1, y - 4}, Point{x1, y + 4})
+	r := b.text(b.format(units.Position, length), (x0+x1)/2, y-3, smallSize, 0.5, 1, inkColour, false)
+	b.occupy(rect{min(x0, r.x0), r.y0, x1, y + 5})
+}
+
+// deformed draws the magnified deflection over the member.
+func (b *builder) deformed(lay layoutBands) {
+	c := sampleCurves(b.in.Solution, b.v, []quantity{deflectionQuantity})
+	curve := c[0]
+	peak := curve.peakAbs()
+	if peak.value == 0 {
+		return
+	}
+	band := float64(lay.sketchBottom - lay.top)
+	mag := b.in.Magnification
+	if mag <= 0 {
+		mag = niceBelow(0.15 * band / (math.Abs(peak.value) * b.v.Scale))
+	}
+	b.s.Magnification = mag
+	pxPerM := mag * b.v.Scale
+	pts := curve.points(func(w float64) float32 { return lay.memberY - float32(w*pxPerM) })
+	b.s.Items = append(b.s.Items, Item{Kind: Polyline, Points: pts, Stroke: deformedColour, StrokeWidth: 2, Dash: true})
+	b.text(fmt.Sprintf("deflection × %s", trimFloat(mag)), 8, lay.top+24, smallSize, 0, 0, deformedColour, false)
+	px := b.sx(peak.x)
+	py := lay.memberY - float32(peak.value*pxPerM)
+	ay := float32(1)
+	if peak.value < 0 {
+		ay = 0
+	}
+	s := fmt.Sprintf("w %s at %s", b.format(units.Deflection, peak.value), b.format(units.Position, peak.x))
+	b.label(s, smallSize, deformedColour, false, false,
+		labelSpot{px, py + 4 - 8*ay, 0.5, ay}, labelSpot{px + 8, py + 4 - 8*ay, 0, ay}, labelSpot{px - 8, py + 4 - 8*ay, 1, ay})
+}
+
+// trimFloat prints a magnification without trailing zeros.
+func trimFloat(v float64) string {
+	if v >= 1 && v == math.Trunc(v) && v < 1e15 {
+		return fmt.Sprintf("%.0f", v)
+	}
+	return fmt.Sprintf("%.3g", v)
+}

@@ -1,0 +1,148 @@
+package canvas
+
+import (
+	"fmt"
+	"image/color"
+	"io"
+	"math"
+
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/vgimg"
+	"gonum.org/v1/plot/vg/vgpdf"
+	"gonum.org/v1/plot/vg/vgsvg"
+)
+
+// drawScene draws s onto c with its top-left corner at origin (in c's
+// y-up coordinates, the top edge is origin.Y) and every length times k.
+// PNG, SVG, PDF and the calculation sheet all go through here, so they
+// cannot drift apart.
+// Text is left out when withText is false (the screen draws it natively).
+func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, withText bool) {
+	pt := func(p Point) vg.Point {
+		return vg.Point{X: origin.X + vg.Length(float64(p.X)*k), Y: origin.Y - vg.Length(float64(p.Y)*k)}
+	}
+	path := func(pts []Point, closed bool) vg.Path {
+		var p vg.Path
+		for i, q := range pts {
+			if i == 0 {
+				p.Move(pt(q))
+			} else {
+				p.Line(pt(q))
+			}
+		}
+		if closed {
+			p.Close()
+		}
+		return p
+	}
+	stroke := func(it Item, p vg.Path) {
+		if it.Stroke.A == 0 || it.StrokeWidth <= 0 {
+			return
+		}
+		c.SetColor(it.Stroke)
+		c.SetLineWidth(vg.Length(float64(it.StrokeWidth) * k))
+		if it.Dash {
+			c.SetLineDash([]vg.Length{vg.Length(5 * k), vg.Length(3 * k)}, 0)
+		} else {
+			c.SetLineDash(nil, 0)
+		}
+		c.Stroke(p)
+	}
+	fill := func(col color.NRGBA, p vg.Path) {
+		if col.A == 0 {
+			return
+		}
+		c.SetColor(col)
+		c.Fill(p)
+	}
+	for _, it := range s.Items {
+		switch it.Kind {
+		case Polyline:
+			if len(it.Points) > 1 {
+				stroke(it, path(it.Points, false))
+			}
+		case Polygon:
+			if len(it.Points) > 2 {
+				p := path(it.Points, true)
+				fill(it.Fill, p)
+				stroke(it, p)
+			}
+		case Circle:
+			var p vg.Path
+			ctr := pt(it.Center)
+			r := vg.Length(float64(it.Radius) * k)
+			p.Move(vg.Point{X: ctr.X + r, Y: ctr.Y})
+			p.Arc(ctr, r, 0, 2*math.Pi)
+			p.Close()
+			fill(it.Fill, p)
+			stroke(it, p)
+		case Text:
+			if !withText {
+				continue
+			}
+			face := textFace(it.Size*float32(k), it.Bold)
+			top := pt(it.At)
+			baseline := top.Y - face.Extents().Ascent - vg.Length(0.04*float64(it.Size)*k)
+			c.SetColor(it.Stroke)
+			c.FillString(face, vg.Point{X: top.X, Y: baseline}, it.Text)
+		}
+	}
+}
+
+// paint fills the canvas white and draws the scene over it at 1 point per
+// scene pixel times k.
+func paint(c vg.Canvas, s *Scene, k float64) {
+	w, h := vg.Length(float64(s.Width)*k), vg.Length(float64(s.Height)*k)
+	var bg vg.Path
+	bg.Move(vg.Point{})
+	bg.Line(vg.Point{X: w})
+	bg.Line(vg.Point{X: w, Y: h})
+	bg.Line(vg.Point{Y: h})
+	bg.Close()
+	c.SetColor(color.White)
+	c.Fill(bg)
+	drawScene(c, s, vg.Point{Y: h}, k, true)
+}
+
+// WritePNG writes the scene as a PNG of Width·scale × Height·scale pixels.
+func WritePNG(w io.Writer, s *Scene, scale float64) error {
+	if err := checkSize(s, scale); err != nil {
+		return err
+	}
+	c := vgimg.New(vg.Length(float64(s.Width)*scale), vg.Length(float64(s.Height)*scale))
+	paint(c, s, scale)
+	_, err := vgimg.PngCanvas{Canvas: c}.WriteTo(w)
+	return err
+}
+
+// WriteSVG writes the scene as SVG, one point per scene pixel.
+func WriteSVG(w io.Writer, s *Scene) error {
+	if err := checkSize(s, 1); err != nil {
+		return err
+	}
+	c := vgsvg.New(vg.Length(s.Width), vg.Length(s.Height))
+	paint(c, s, 1)
+	_, err := c.WriteTo(w)
+	return err
+}
+
+// WritePDF writes the scene as a one-page PDF, one point per scene pixel.
+func WritePDF(w io.Writer, s *Scene) error {
+	if err := checkSize(s, 1); err != nil {
+		return err
+	}
+	c := vgpdf.New(vg.Length(s.Width), vg.Length(s.Height))
+	paint(c, s, 1)
+	_, err := c.WriteTo(w)
+	return err
+}
+
+func checkSize(s *Scene, scale float64) error {
+	if s == nil {
+		return fmt.Errorf("canvas: no scene to write: call Build first")
+	}
+	if s.Width < 1 || s.Height < 1 || !(scale > 0) || float64(s.Width)*scale > 20000 || float64(s.Height)*scale > 20000 {
+		return fmt.Errorf("canvas: cannot write a drawing of %v × %v pixels at scale %v: each side must come to between 1 and 20000 pixels", s.Width, s.Height, scale)
+	}
+	return nil
+}
