@@ -1,0 +1,156 @@
+package fem
+
+import (
+	"math"
+	"testing"
+)
+
+func solveBoth(t *testing.T, m *Model) (*Solution, *Exact) {
+	t.Helper()
+	s, err := Solve(m)
+	if err != nil {
+		t.Fatalf("Solve: %v", err)
+	}
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatalf("SolveExact: %v", err)
+	}
+	return s, e
+}
+
+// With point loads only the exact u is linear and w cubic between nodes, so
+// linear bars and Hermite beams reproduce them (Hughes, The Finite Element
+// Method, ch. 1, nodal exactness in one dimension, from memory): every norm
+// must be at round-off level.
+func TestCompareZeroWhenTheElementsAreExact(t *testing.T) {
+	m := Model{Segments: member(5, 2),
+		Supports: []Support{{X: 0, Kind: Fixed}, {X: 3.5, Kind: Roller},
+			{X: 5, Kind: Spring, Stiffness: [3]float64{1e6, 3e5, 0}}},
+		PointLoads: []PointLoad{{X: 1, Axial: 8e3, Transverse: -6e3}, {X: 4.2, Moment: 2e3, Transverse: 1e3}},
+		Mesh:       MeshSettings{Elements: 7}}
+	m.Segments[1].Section.SecondMoment = tI / 2
+	s, e := solveBoth(t, &m)
+	n := Compare(s, e)
+	scale := math.Abs(e.At(4.2, Right).Deflection) + math.Abs(e.At(1, Right).AxialDisplacement)
+	for _, c := range []check{
+		{"MaxDeflection/scale", n.MaxDeflection / scale, 0},
+		{"MaxAxial/scale", n.MaxAxial / scale, 0},
+		{"MaxStressRelative", n.MaxStressRelative, 0},
+		{"RelativeL2", n.RelativeL2, 0},
+		{"RelativeEnergy", n.RelativeEnergy, 0},
+	} {
+		if !(c.got < 1e-11) {
+			t.Errorf("%s = %.3g, want round-off (< 1e-11)", c.what, c.got)
+		}
+	}
+	t.Logf("point loads only: %+v", n)
+}
+
+// A bar fixed at x = 0 under a uniform axial load p, n linear elements. The
+// nodal values are exact, so on each element of length h the error is the
+// interpolation error (p/2EA)·s·(h − s) and N − N_h = p·(h/2 − s). Integrating:
+// ‖u − u_h‖/‖u‖ = 1/(4n²) and the energy ratio is 1/(2n); max |u − u_h| =
+// pL²/(8EA·n²) and the stress error peaks at p·h/(2A) against pL/A.
+// Derived from the interpolation error of linear elements (Strang & Fix, An
+// Analysis of the Finite Element Method, ch. 1 and 3, rates 2 and 1, from memory).
+func TestCompareLinearBarUniformLoad(t *testing.T) {
+	for _, n := range []int{1, 2, 4, 8, 16} {
+		m := Model{Segments: member(tL), Supports: []Support{{X: 0, Kind: Fixed}},
+			DistributedLoad: []DistributedLoad{uniformLoad(Axial, 0, tL, tQ, tQ)},
+			Mesh:            MeshSettings{Elements: n, BarOrder: LinearBar}}
+		s, e := solveBoth(t, &m)
+		got := Compare(s, e)
+		nf := float64(n)
+		for _, c := range []check{
+			{"RelativeL2", got.RelativeL2, 1 / (4 * nf * nf)},
+			{"RelativeEnergy", got.RelativeEnergy, 1 / (2 * nf)},
+			{"MaxAxial", got.MaxAxial, tQ * tL * tL / (8 * tEA * nf * nf)},
+			{"MaxStressRelative", got.MaxStressRelative, 1 / (2 * nf)},
+			{"MaxDeflection", got.MaxDeflection, 0},
+		} {
+			tol := relTol * math.Abs(c.want)
+			if c.want == 0 {
+				tol = 1e-15 // m: far below the 1e-4 m axial displacements here
+			}
+			if math.Abs(c.got-c.want) > tol {
+				t.Errorf("%d elements: %s = %.12g, want %.12g", n, c.what, c.got, c.want)
+			}
+		}
+	}
+}
+
+// observedRate fits the slope of log(error) against log(h) over the last
+// three meshes of a halving sequence.
+func observedRate(errs []float64) float64 {
+	k := len(errs)
+	return math.Log2(errs[k-3]/errs[k-1]) / 2
+}
+
+// Convergence under refinement, measured by fitting the observed rate
+// (Strang & Fix, An Analysis of the Finite Element Method, ch. 3, from memory:
+// with degree-k elements the L2 error is O(h^(k+1)) and the energy error O(h^k)).
+func TestCompareConvergenceRates(t *testing.T) {
+	for _, c := range []struct {
+		name               string
+		model              Model
+		rateL2, rateEnergy float64
+	}{
+		{"quadratic bar, linearly varying axial load", Model{Segments: member(tL), Supports: []Support{{X: 0, Kind: Fixed}},
+			DistributedLoad: []DistributedLoad{uniformLoad(Axial, 0, tL, 0, tQ)}, Mesh: MeshSettings{BarOrder: QuadraticBar}}, 3, 2},
+		{"Hermite beam, simply supported, uniform load", Model{Segments: member(tL), Supports: []Support{{X: 0, Kind: Pinned}, {X: tL, Kind: Roller}},
+			DistributedLoad: []DistributedLoad{uniformLoad(Transverse, 0, tL, -tQ, -tQ)}}, 4, 2},
+		{"Hermite beam, cantilever, triangular load", Model{Segments: member(tL), Supports: []Support{{X: 0, Kind: Fixed}},
+			DistributedLoad: []DistributedLoad{uniformLoad(Transverse, 0, tL, -tQ, 0)}}, 4, 2},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			var l2, energy []float64
+			for n := 2; n <= 32; n *= 2 {
+				m := c.model
+				m.Mesh.Elements = n
+				s, e := solveBoth(t, &m)
+				got := Compare(s, e)
+				l2, energy = append(l2, got.RelativeL2), append(energy, got.RelativeEnergy)
+			}
+			r2, re := observedRate(l2), observedRate(energy)
+			t.Logf("L2 %.3g → %.3g (rate %.3f), energy %.3g → %.3g (rate %.3f)", l2[0], l2[len(l2)-1], r2, energy[0], energy[len(energy)-1], re)
+			if math.Abs(r2-c.rateL2) > 0.1 || math.Abs(re-c.rateEnergy) > 0.1 {
+				t.Errorf("observed rates L2 %.3f, energy %.3f; theory %g and %g", r2, re, c.rateL2, c.rateEnergy)
+			}
+		})
+	}
+}
+
+// A bar free to expand has no stress: exact and finite element N are both
+// round-off, and the relative stress and energy errors must read 0, not a
+// ratio of two round-off values or an infinity.
+func TestCompareVanishingExactStress(t *testing.T) {
+	m := Model{Segments: member(tL, 1.5), Supports: []Support{{X: 0, Kind: Pinned}, {X: tL, Kind: Roller}},
+		TemperatureChange: tT, Mesh: MeshSettings{Elements: 6}}
+	m.Segments[1].Section.Area = tA / 3
+	s, e := solveBoth(t, &m)
+	got := Compare(s, e)
+	if got.MaxStressRelative != 0 || got.RelativeEnergy != 0 {
+		t.Errorf("free thermal expansion: MaxStressRelative = %g, RelativeEnergy = %g, want 0 and 0 (absolute stress error %g Pa)",
+			got.MaxStressRelative, got.RelativeEnergy, got.MaxStress)
+	}
+	if !(got.RelativeL2 < 1e-12) {
+		t.Errorf("free thermal expansion: RelativeL2 = %g, want round-off", got.RelativeL2)
+	}
+}
+
+func TestRelativeError(t *testing.T) {
+	for _, c := range []struct {
+		name                        string
+		err, exact, fe, other, want float64
+	}{
+		{"ordinary ratio", 0.5, 10, 10.3, 0, 0.05},
+		{"everything zero", 0, 0, 0, 0, 0},
+		{"exact zero, error at round-off of the thermal term", 1e-6, 1e-7, 1e-6, 1e5, 0},
+		{"exact zero, real error", 3, 0, 3, 0, 1},
+		{"exact negligible, real error against a thermal scale", 2e4, 1e-8, 2e4, 8e4, 0.25},
+	} {
+		if got := relativeError(c.err, c.exact, c.fe, c.other); math.Abs(got-c.want) > 1e-15 {
+			t.Errorf("%s: relativeError = %g, want %g", c.name, got, c.want)
+		}
+	}
+}
