@@ -265,6 +265,7 @@ type refCase struct {
 	name      string
 	model     fem.Model
 	reactions [][3]float64 // per support, in Model.Supports order: force on the member
+	energy    float64      // strain energy, J
 	points    []pointCheck
 	extremes  []extremeCheck
 }
@@ -273,8 +274,10 @@ type refCase struct {
 // against book values: the field, the allowed error of each quantity at each
 // point, and samples along the member for extremes.
 type judge struct {
-	field   fem.Field
-	length  float64 // L, m
+	field  fem.Field
+	length float64 // L, m
+	// exactAt says whether theory makes q exact at x, so that only round-off is allowed.
+	exactAt func(q quantity, x float64) bool
 	allowed func(q quantity, x float64) float64
 	samples []fem.Fields
 }
@@ -463,17 +466,40 @@ func feJudge(sol *fem.Solution, order fem.ElementOrder) judge {
 	s := scalesOf(&sol.Model)
 	loads := loadBoundsOf(&sol.Model)
 	h := longestElement(sol.Mesh)
+	exactAt := func(q quantity, x float64) bool {
+		return q.nodallyExact() && isNode(sol.Mesh, x) || betweenNodes(q, order, h, loads, s) == 0
+	}
 	return judge{
-		field:  sol,
-		length: sol.Model.Length(),
+		field:   sol,
+		length:  sol.Model.Length(),
+		exactAt: exactAt,
 		allowed: func(q quantity, x float64) float64 {
 			tol := roundOff * s.of(q)
-			if q.nodallyExact() && isNode(sol.Mesh, x) {
+			if exactAt(q, x) {
 				return tol
 			}
 			return tol + betweenNodes(q, order, h, loads, s)
 		},
 		samples: sol.Sample(8),
+	}
+}
+
+// checkStrainEnergy compares the finite element strain energy with the book's.
+// With consistent loads the finite element energy falls short of the exact one
+// by half the squared energy norm of the error (Hughes ch. 1, from memory),
+// at most ½·L·(ΔM²/EI + ΔN²/EA) with ΔM, ΔN the between-node bounds.
+func checkStrainEnergy(t *testing.T, c refCase, sol *fem.Solution, order fem.ElementOrder) {
+	t.Helper()
+	s := scalesOf(&sol.Model)
+	loads := loadBoundsOf(&sol.Model)
+	h := longestElement(sol.Mesh)
+	dM := betweenNodes(bendingMoment, order, h, loads, s)
+	dN := betweenNodes(axialForce, order, h, loads, s)
+	shortfall := s.length / 2 * (dM*dM/s.minEI + dN*dN/s.minEA)
+	got, tol := sol.StrainEnergy, roundOff*c.energy
+	if !(got <= c.energy+tol && got >= c.energy-tol-shortfall) {
+		t.Errorf("strain energy %.10g J, book %.10g J (allowed below it by %.3g J, above by %.3g J)",
+			got, c.energy, tol+shortfall, tol)
 	}
 }
 
@@ -490,6 +516,7 @@ func exactJudge(ex *fem.Exact, m *fem.Model) judge {
 	return judge{
 		field:   ex,
 		length:  L,
+		exactAt: func(quantity, float64) bool { return true },
 		allowed: func(q quantity, _ float64) float64 { return roundOff * s.of(q) },
 		samples: samples,
 	}

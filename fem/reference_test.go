@@ -46,6 +46,8 @@ func referenceCases() []refCase {
 			model: fem.Model{Segments: refMember(L), Supports: []fem.Support{{X: 0, Kind: fem.Fixed}},
 				PointLoads: []fem.PointLoad{{X: L, Axial: F}}},
 			reactions: [][3]float64{{-F, 0, 0}},
+			// Strain energy U = N²L/(2EA) of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: F * F * L / (2 * EA),
 			points: []pointCheck{
 				{x: L, q: axialDisplacement, want: F * L / EA},
 				{x: L / 2, q: axialDisplacement, want: F * L / (2 * EA)},
@@ -64,6 +66,8 @@ func referenceCases() []refCase {
 			model: fem.Model{Segments: refMember(L), Supports: []fem.Support{{X: 0, Kind: fem.Fixed}},
 				DistributedLoad: []fem.DistributedLoad{uniformLoad(fem.Axial, 0, L, p)}},
 			reactions: [][3]float64{{-p * L, 0, 0}},
+			// Strain energy U = ∫N²/(2EA) dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: p * p * L * L * L / (6 * EA),
 			points: []pointCheck{
 				{x: L, q: axialDisplacement, want: p * L * L / (2 * EA)},
 				{x: L / 2, q: axialDisplacement, want: 3 * p * L * L / (8 * EA)},
@@ -84,6 +88,8 @@ func referenceCases() []refCase {
 				DistributedLoad: []fem.DistributedLoad{{Direction: fem.Axial,
 					Points: []fem.LoadPoint{{X: 0, Intensity: 0}, {X: L, Intensity: p}}}}},
 			reactions: [][3]float64{{-p * L / 2, 0, 0}},
+			// Strain energy U = ∫N²/(2EA) dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: p * p * L * L * L / (15 * EA),
 			points: []pointCheck{
 				{x: L, q: axialDisplacement, want: p * L * L / (3 * EA)},
 				{x: L / 2, q: axialDisplacement, want: 11 * p * L * L / (48 * EA)},
@@ -106,6 +112,8 @@ func referenceCases() []refCase {
 				Supports:   []fem.Support{{X: 0, Kind: fem.Fixed}},
 				PointLoads: []fem.PointLoad{{X: L, Axial: F}}},
 			reactions: [][3]float64{{-F, 0, 0}},
+			// Strain energy U = Σ N²Lᵢ/(2EAᵢ) of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: 3 * F * F * L / (4 * EA),
 			points: []pointCheck{
 				{x: L / 2, q: axialDisplacement, want: F * (L / 2) / EA},
 				{x: L, q: axialDisplacement, want: F*(L/2)/EA + F*(L/2)/(EA/2)},
@@ -128,6 +136,8 @@ func referenceCases() []refCase {
 				Supports:   []fem.Support{{X: 0, Kind: fem.Fixed}, {X: L, Kind: fem.Fixed}},
 				PointLoads: []fem.PointLoad{{X: a, Axial: F}}},
 			reactions: [][3]float64{{-F * b / L, 0, 0}, {-F * a / L, 0, 0}},
+			// Strain energy U = F·u(a)/2 of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: F * F * a * b / (2 * L * EA),
 			points: []pointCheck{
 				{x: a, q: axialDisplacement, want: F * a * b / (L * EA)},
 				{x: a / 2, q: axialDisplacement, want: F * b / L * (a / 2) / EA},
@@ -148,6 +158,8 @@ func referenceCases() []refCase {
 				Supports:          []fem.Support{{X: 0, Kind: fem.Fixed}, {X: L, Kind: fem.Fixed}},
 				TemperatureChange: dT},
 			reactions: [][3]float64{{EA * refAlpha * dT, 0, 0}, {-EA * refAlpha * dT, 0, 0}},
+			// Strain energy U = N²L/(2EA) of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: EA * refAlpha * dT * refAlpha * dT * L / 2,
 			points: []pointCheck{
 				{x: L / 2, q: axialDisplacement, want: 0},
 				{x: L / 3, q: axialForce, want: -EA * refAlpha * dT},
@@ -165,6 +177,8 @@ func referenceCases() []refCase {
 			model: fem.Model{Segments: refMember(L), Supports: []fem.Support{{X: 0, Kind: fem.Fixed}},
 				Gravity: [2]float64{fem.StandardGravity, 0}},
 			reactions: [][3]float64{{-gamma * refA * L, 0, 0}},
+			// Strain energy U = ∫N²/(2EA) dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: gamma * gamma * refA * L * L * L / (6 * refE),
 			points: []pointCheck{
 				{x: L, q: axialDisplacement, want: gamma * L * L / (2 * refE)},
 				{x: L / 2, q: axialDisplacement, want: 3 * gamma * L * L / (8 * refE)},
@@ -184,6 +198,8 @@ func referenceCases() []refCase {
 			model: fem.Model{Segments: refMember(L), Supports: []fem.Support{{X: 0, Kind: fem.Fixed}},
 				PointLoads: []fem.PointLoad{{X: L, Transverse: P}}},
 			reactions: [][3]float64{{0, -P, -P * L}},
+			// Strain energy U = ∫M²/(2EI) dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: P * P * L * L * L / (6 * EI),
 			points: []pointCheck{
 				{x: L, q: deflection, want: P * L * L * L / (3 * EI)},
 				{x: L, q: rotation, want: P * L * L / (2 * EI)},
@@ -205,6 +221,8 @@ func referenceCases() []refCase {
 			model: fem.Model{Segments: refMember(L), Supports: []fem.Support{{X: 0, Kind: fem.Fixed}},
 				DistributedLoad: []fem.DistributedLoad{uniformLoad(fem.Transverse, 0, L, q)}},
 			reactions: [][3]float64{{0, -q * L, -q * L * L / 2}},
+			// Strain energy U = ∫M²/(2EI) dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: q * q * L * L * L * L * L / (40 * EI),
 			points: []pointCheck{
 				{x: L, q: deflection, want: q * L * L * L * L / (8 * EI)},
 				{x: L, q: rotation, want: q * L * L * L / (6 * EI)},
@@ -228,6 +246,8 @@ func referenceCases() []refCase {
 				DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse,
 					Points: []fem.LoadPoint{{X: 0, Intensity: q}, {X: L, Intensity: 0}}}}},
 			reactions: [][3]float64{{0, -q * L / 2, -q * L * L / 6}},
+			// Strain energy U = ∫M²/(2EI) dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: q * q * L * L * L * L * L / (504 * EI),
 			points: []pointCheck{
 				{x: L, q: deflection, want: q * L * L * L * L / (30 * EI)},
 				{x: L, q: rotation, want: q * L * L * L / (24 * EI)},
@@ -248,6 +268,8 @@ func referenceCases() []refCase {
 			model: fem.Model{Segments: refMember(L), Supports: []fem.Support{{X: 0, Kind: fem.Fixed}},
 				PointLoads: []fem.PointLoad{{X: L, Moment: M0}}},
 			reactions: [][3]float64{{0, 0, -M0}},
+			// Strain energy U = M0²L/(2EI) of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: M0 * M0 * L / (2 * EI),
 			points: []pointCheck{
 				{x: L, q: deflection, want: M0 * L * L / (2 * EI)},
 				{x: L, q: rotation, want: M0 * L / EI},
@@ -269,6 +291,8 @@ func referenceCases() []refCase {
 				Supports:   []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L, Kind: fem.Roller}},
 				PointLoads: []fem.PointLoad{{X: L / 2, Transverse: P}}},
 			reactions: [][3]float64{{0, -P / 2, 0}, {0, -P / 2, 0}},
+			// Strain energy U = P·w/2 of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: P * P * L * L * L / (96 * EI),
 			points: []pointCheck{
 				{x: 0, q: rotation, want: P * L * L / (16 * EI)},
 				{x: L, q: rotation, want: -P * L * L / (16 * EI)},
@@ -293,6 +317,8 @@ func referenceCases() []refCase {
 				Supports:   []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L, Kind: fem.Roller}},
 				PointLoads: []fem.PointLoad{{X: a, Transverse: P}}},
 			reactions: [][3]float64{{0, -P * b / L, 0}, {0, -P * a / L, 0}},
+			// Strain energy U = P·w(a)/2 of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: P * P * a * a * b * b / (6 * EI * L),
 			points: []pointCheck{
 				{x: a, q: deflection, want: P * a * a * b * b / (3 * EI * L)},
 				{x: 0, q: rotation, want: P * a * b * (L + b) / (6 * L * EI)},
@@ -314,6 +340,8 @@ func referenceCases() []refCase {
 				Supports:        []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L, Kind: fem.Roller}},
 				DistributedLoad: []fem.DistributedLoad{uniformLoad(fem.Transverse, 0, L, q)}},
 			reactions: [][3]float64{{0, -q * L / 2, 0}, {0, -q * L / 2, 0}},
+			// Strain energy U = ∫M²/(2EI) dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: q * q * L * L * L * L * L / (240 * EI),
 			points: []pointCheck{
 				{x: 0, q: rotation, want: q * L * L * L / (24 * EI)},
 				{x: L, q: rotation, want: -q * L * L * L / (24 * EI)},
@@ -337,6 +365,8 @@ func referenceCases() []refCase {
 				Supports:        []fem.Support{{X: 0, Kind: fem.Fixed}, {X: L, Kind: fem.Fixed}},
 				DistributedLoad: []fem.DistributedLoad{uniformLoad(fem.Transverse, 0, L, q)}},
 			reactions: [][3]float64{{0, -q * L / 2, -q * L * L / 12}, {0, -q * L / 2, q * L * L / 12}},
+			// Strain energy U = ½∫q·w dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: q * q * L * L * L * L * L / (1440 * EI),
 			points: []pointCheck{
 				{x: L / 2, q: bendingMoment, want: -q * L * L / 24},
 				{x: L / 4, q: deflection, want: q * (L / 4) * (L / 4) * (3 * L / 4) * (3 * L / 4) / (24 * EI)},
@@ -364,6 +394,8 @@ func referenceCases() []refCase {
 				{0, -P * b * b * (3*a + b) / (L * L * L), -P * a * b * b / (L * L)},
 				{0, -P * a * a * (a + 3*b) / (L * L * L), P * a * a * b / (L * L)},
 			},
+			// Strain energy U = P·w(a)/2 of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: P * P * a * a * a * b * b * b / (6 * EI * L * L * L),
 			points: []pointCheck{
 				{x: a, q: deflection, want: P * a * a * a * b * b * b / (3 * EI * L * L * L)},
 				{x: a, q: bendingMoment, want: -2 * P * a * a * b * b / (L * L * L)},
@@ -386,6 +418,8 @@ func referenceCases() []refCase {
 				Supports:        []fem.Support{{X: 0, Kind: fem.Fixed}, {X: L, Kind: fem.Roller}},
 				DistributedLoad: []fem.DistributedLoad{uniformLoad(fem.Transverse, 0, L, q)}},
 			reactions: [][3]float64{{0, -5 * q * L / 8, -q * L * L / 8}, {0, -3 * q * L / 8, 0}},
+			// Strain energy U = ½∫q·w dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: q * q * L * L * L * L * L / (640 * EI),
 			points: []pointCheck{
 				{x: L / 2, q: deflection, want: propped(L/2, L)},
 				{x: L, q: rotation, want: -q * L * L * L / (48 * EI)},
@@ -410,6 +444,8 @@ func referenceCases() []refCase {
 					{X: 2 * span, Kind: fem.Roller}},
 				DistributedLoad: []fem.DistributedLoad{uniformLoad(fem.Transverse, 0, 2*span, q)}},
 			reactions: [][3]float64{{0, -3 * q * span / 8, 0}, {0, -10 * q * span / 8, 0}, {0, -3 * q * span / 8, 0}},
+			// Strain energy U = ½∫q·w dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			energy: q * q * span * span * span * span * span / (320 * EI),
 			points: []pointCheck{
 				{x: span, q: rotation, want: 0},
 				{x: 0, q: rotation, want: q * span * span * span / (48 * EI)},
@@ -441,15 +477,15 @@ func TestReferenceFiniteElement(t *testing.T) {
 					sol := solveWith(t, c.model, n, order)
 					checkReactions(t, c, sol.Reactions, scalesOf(&c.model))
 					checkEquilibrium(t, &c.model, sol.Reactions, &sol.Equilibrium)
-					j := feJudge(sol, order)
-					s := scalesOf(&c.model)
 					// Only what theory says is exact at any mesh: nodal displacements, and
 					// everything where the load between nodes leaves no error.
-					j.checkPoints(t, c, func(q quantity, x float64) bool { return j.allowed(q, x) == roundOff*s.of(q) })
+					j := feJudge(sol, order)
+					j.checkPoints(t, c, j.exactAt)
 				}
 				sol := solveWith(t, c.model, fineMesh, order)
 				checkReactions(t, c, sol.Reactions, scalesOf(&c.model))
 				checkEquilibrium(t, &c.model, sol.Reactions, &sol.Equilibrium)
+				checkStrainEnergy(t, c, sol, order)
 				j := feJudge(sol, order)
 				j.checkPoints(t, c, nil)
 				j.checkExtremes(t, c)
