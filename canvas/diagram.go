@@ -136,7 +136,7 @@ func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme) {
 		b.line(exactColour, 0.9, exPts...)
 	}
 	if d.unit == units.Stress {
-		b.stressBand(fe, ex, innerBottom+6)
+		b.stressBand(fe, ex, innerBottom+6, st.top+8)
 	}
 	main := fe
 	if main == nil || main.n == 0 {
@@ -165,7 +165,8 @@ func (b *builder) extremes(c *curve, d diagram, toY func(float64) float32) {
 		return
 	}
 	for _, e := range []extreme{c.hi, c.lo} {
-		if e.value == 0 || (e == c.lo && c.lo == c.hi) {
+		// A constant diagram gets one label.
+		if e.value == 0 || (e == c.lo && math.Abs(c.hi.value-c.lo.value) <= 1e-9*math.Abs(c.hi.value)) {
 			continue
 		}
 		px, py := b.sx(e.x), toY(e.value)
@@ -199,7 +200,7 @@ func stressColour(t float64) color.NRGBA {
 
 // stressBand draws a colour strip along the member, one run per colour step,
 // and its legend.
-func (b *builder) stressBand(fe, ex *curve, y float32) {
+func (b *builder) stressBand(fe, ex *curve, y, legendY float32) {
 	c := fe
 	if c == nil || c.n == 0 {
 		c = ex
@@ -225,9 +226,7 @@ func (b *builder) stressBand(fe, ex *curve, y float32) {
 	}
 	for k, col := range c.cols {
 		if col.n == 0 {
-			flush(k)
-			runStart = -1
-			continue
+			continue // a column between samples continues the run
 		}
 		if s := step(col); runStart < 0 || s != runStep {
 			flush(k)
@@ -237,7 +236,7 @@ func (b *builder) stressBand(fe, ex *curve, y float32) {
 	flush(len(c.cols))
 	// Legend: compression on the left, tension on the right.
 	lx := b.v.Width - 190
-	ly := y - 22
+	ly := legendY
 	for k := -steps; k < steps; k++ {
 		x := lx + float32(k+steps)*4
 		b.rectangle(x, ly, x+4, ly+8, stressColour((float64(k)+0.5)/steps))

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"image/color"
 	"math"
+	"strconv"
 
 	"stave/fem"
 	"stave/fem/units"
@@ -38,15 +39,16 @@ func (b *builder) sketch(lay layoutBands) {
 	for i, p := range m.PointLoads {
 		b.pointLoad(i, p, y)
 	}
-	if b.in.Layers.Deformed && b.in.Solution != nil {
-		b.deformed(lay)
+	// Fixed-place labels first, so the movable ones avoid them.
+	if b.in.Layers.Dimensions {
+		b.dimensions(y)
+		b.scaleBar(lay.top)
 	}
 	if b.in.Solution != nil {
 		b.reactions(y)
 	}
-	if b.in.Layers.Dimensions {
-		b.dimensions(y)
-		b.scaleBar(lay.top)
+	if b.in.Layers.Deformed && b.in.Solution != nil {
+		b.deformed(lay)
 	}
 	if b.in.Problem != "" {
 		b.problem(lay)
@@ -245,20 +247,19 @@ func (b *builder) pointLoad(i int, p fem.PointLoad, y float32) {
 	ref := Ref{Kind: PointLoad, Index: i}
 	c := b.colourFor(ref, loadColour)
 	x := b.sx(p.X)
-	var hit []Point
 	if p.Transverse != 0 {
 		if p.Transverse < 0 {
 			tip := Point{x, y - memberWidth/2 - 1}
 			tail := Point{x, tip.Y - arrowLength}
 			b.arrow(tail, tip, c, 2, 10)
 			b.pointLabel(b.format(units.Force, math.Abs(p.Transverse)), tail, 1)
-			hit = append(hit, tail, tip)
+			b.handle(ref, 6, tail, tip)
 		} else {
 			tip := Point{x, y + memberWidth/2 + 1}
 			tail := Point{x, tip.Y + arrowLength}
 			b.arrow(tail, tip, c, 2, 10)
 			b.pointLabel(b.format(units.Force, p.Transverse), tail, 0)
-			hit = append(hit, tail, tip)
+			b.handle(ref, 6, tail, tip)
 		}
 	}
 	if p.Axial != 0 {
@@ -272,16 +273,13 @@ func (b *builder) pointLoad(i int, p fem.PointLoad, y float32) {
 		b.arrow(tail, tip, c, 2, 9)
 		b.label(b.format(units.Force, math.Abs(p.Axial)), smallSize, c, false, true,
 			labelSpot{tip.X + dir*3, ay, (1 - dir) / 2, 0.5}, labelSpot{(tail.X + tip.X) / 2, ay - 4, 0.5, 1})
-		hit = append(hit, tail, tip)
+		b.handle(ref, 6, tail, tip)
 	}
 	if p.Moment != 0 {
 		b.momentArrow(Point{x, y}, 16, p.Moment > 0, c)
 		b.label(b.format(units.Moment, math.Abs(p.Moment)), smallSize, c, false, true,
 			labelSpot{x + 20, y - 18, 0, 1}, labelSpot{x - 20, y - 18, 1, 1})
-		hit = append(hit, Point{x, y - 16})
-	}
-	if len(hit) > 0 {
-		b.handle(ref, 6, hit...)
+		b.handle(ref, 16, Point{x, y})
 	}
 }
 
@@ -319,7 +317,7 @@ func (b *builder) distributedLoads(lay layoutBands) {
 	m := b.in.Model
 	base := lay.memberY - memberWidth/2 - 2
 	room := base - lay.top - 50
-	maxPx := max(16, min(64, room-arrowLength*0.2))
+	maxPx := max(16, min(90, room*0.6))
 	peak := 0.0
 	for _, d := range m.DistributedLoad {
 		for _, p := range d.Points {
@@ -543,7 +541,8 @@ func (b *builder) scaleBar(top float32) {
 	b.line(inkColour, 2, Point{x0, y}, Point{x1, y})
 	b.line(inkColour, 1, Point{x0, y - 4}, Point{x0, y + 4})
 	b.line(inkColour, 1, Point{x1, y - 4}, Point{x1, y + 4})
-	r := b.text(b.format(units.Position, length), (x0+x1)/2, y-3, smallSize, 0.5, 1, inkColour, false)
+	s := strconv.FormatFloat(b.u.ToDisplay(units.Position, length), 'g', -1, 64) + " " + b.u.Unit(units.Position).Symbol
+	r := b.text(s, (x0+x1)/2, y-3, smallSize, 0.5, 1, inkColour, false)
 	b.occupy(rect{min(x0, r.x0), r.y0, x1, y + 5})
 }
 

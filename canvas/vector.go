@@ -109,7 +109,8 @@ func WritePNG(w io.Writer, s *Scene, scale float64) error {
 	if err := checkSize(s, scale); err != nil {
 		return err
 	}
-	c := vgimg.New(vg.Length(float64(s.Width)*scale), vg.Length(float64(s.Height)*scale))
+	// At 72 dpi one point is one pixel.
+	c := vgimg.NewWith(vgimg.UseWH(vg.Length(float64(s.Width)*scale), vg.Length(float64(s.Height)*scale)), vgimg.UseDPI(72))
 	paint(c, s, scale)
 	_, err := vgimg.PngCanvas{Canvas: c}.WriteTo(w)
 	return err
