@@ -43,7 +43,7 @@ type stretchSolution struct {
 // beam share the assembly. Its section actions are
 // T_i = sign_i·stiffness·y^(order−1−i) (+ offset for i = 0), each paired with
 // the motion y^(i) = dofs[i], and at every point T_i(right) − T_i(left) equals
-// minus the external action there (point load, rigid reaction, spring force).
+// minus the external action there (point load, support reaction).
 type odeProblem struct {
 	order int
 	dofs  []Dof
@@ -60,16 +60,20 @@ var (
 
 // keyPoint gathers what acts at one key point.
 type keyPoint struct {
-	load   [3]float64 // point loads by Dof: N, N, N·m
-	spring [3]float64 // summed spring stiffness by Dof: N/m, N/m, N·m/rad
-	rigid  []restraint
+	load       [3]float64 // point loads by Dof: N, N, N·m
+	restraints []restraint
 }
 
-// restraint is one rigidly held motion of a support.
+// restraint is one motion y a support holds, rigidly or by a spring. Its
+// reaction R is an unknown with the condition y + compliance·R = settlement:
+// a spring (R = −k·y) has compliance 1/k and no settlement, a rigid
+// restraint compliance 0. Written this way a very stiff spring tends to the
+// rigid condition instead of multiplying a tiny y by a huge k.
 type restraint struct {
 	support    int // index into Model.Supports
 	dof        Dof
-	settlement float64
+	settlement float64 // m or rad
+	compliance float64 // m/N or rad/(N·m)
 }
 
 // maxCondition bounds the condition number of the equilibrated system; above
@@ -91,9 +95,9 @@ func SolveExact(m *Model) (*Exact, error) {
 		for d := Axial; d <= Rotation; d++ {
 			switch {
 			case s.Kind.Restrains(d):
-				k.rigid = append(k.rigid, restraint{support: i, dof: d, settlement: s.Settlement[d]})
-			case s.Kind == Spring:
-				k.spring[d] += s.Stiffness[d]
+				k.restraints = append(k.restraints, restraint{support: i, dof: d, settlement: s.Settlement[d]})
+			case s.Kind == Spring && s.Stiffness[d] > 0:
+				k.restraints = append(k.restraints, restraint{support: i, dof: d, compliance: 1 / s.Stiffness[d]})
 			}
 		}
 	}
@@ -116,7 +120,6 @@ func SolveExact(m *Model) (*Exact, error) {
 			return nil, err
 		}
 	}
-	e.addSpringReactions(m)
 	return e, nil
 }
 
@@ -187,12 +190,12 @@ func (e *Exact) keyIndex(x float64) int {
 }
 
 // solveProblem assembles and solves the bar or the beam equations: per
-// stretch the homogeneous constants, per rigid restraint its reaction.
+// stretch the homogeneous constants, per restraint its reaction.
 func (e *Exact) solveProblem(p odeProblem, points []keyPoint) error {
 	nStretch := len(e.stretches)
 	var held []restraint
 	for _, k := range points {
-		for _, r := range k.rigid {
+		for _, r := range k.restraints {
 			if p.index(r.dof) >= 0 {
 				held = append(held, r)
 			}
@@ -248,9 +251,8 @@ func (e *Exact) solveProblem(p odeProblem, points []keyPoint) error {
 				action(k-1, i, 1, -1)
 			}
 			sys.b[sys.row] -= kp.load[d]
-			term(side, i, t, -kp.spring[d])
 			first := next
-			for _, r := range kp.rigid {
+			for _, r := range kp.restraints {
 				if r.dof == d {
 					sys.a.Set(sys.row, p.order*nStretch+next, 1)
 					next++
@@ -259,6 +261,7 @@ func (e *Exact) solveProblem(p odeProblem, points []keyPoint) error {
 			sys.row++
 			for q := first; q < next; q++ {
 				term(side, i, t, 1)
+				sys.a.Set(sys.row, p.order*nStretch+q, held[q].compliance)
 				sys.b[sys.row] += held[q].settlement
 				sys.row++
 			}
@@ -287,23 +290,12 @@ func (p odeProblem) index(d Dof) int {
 	return -1
 }
 
-// addSpringReactions adds the force −k·y each spring exerts on the member.
-func (e *Exact) addSpringReactions(m *Model) {
-	for i, s := range m.Supports {
-		if s.Kind != Spring {
-			continue
-		}
-		f := e.At(s.X, Right)
-		motion := [3]float64{f.AxialDisplacement, f.Deflection, f.Rotation}
-		for d := range motion {
-			e.reactions[i].Force[d] -= s.Stiffness[d] * motion[d]
-		}
-	}
-}
-
 // Reactions returns the force each support exerts on the member, in the order
-// of Model.Supports: rigid reactions plus spring forces.
+// of Model.Supports, springs included.
 func (e *Exact) Reactions() []Reaction {
+	if e == nil {
+		return nil
+	}
 	return append([]Reaction(nil), e.reactions...)
 }
 
@@ -311,6 +303,9 @@ func (e *Exact) Reactions() []Reaction {
 // picks the limit; x is clamped to the member, and at its ends the side
 // outside gives the value just inside.
 func (e *Exact) At(x float64, side Side) Fields {
+	if e == nil || len(e.stretches) == 0 {
+		return Fields{X: x}
+	}
 	j, t := e.locate(x, side)
 	s := &e.stretches[j]
 	h := s.length
@@ -354,7 +349,7 @@ func (e *Exact) locate(x float64, side Side) (int, float64) {
 			return k, 0
 		}
 	}
-	j := k
+	j := min(k, last) // NaN lands past the last key point
 	if x < e.keys[k] {
 		j = k - 1
 	}

@@ -627,3 +627,107 @@ func TestExactRejectsMechanisms(t *testing.T) {
 		})
 	}
 }
+
+// The scaled formulation must stay accurate for stiff springs and long
+// members with many stretches.
+func TestExactConditioning(t *testing.T) {
+	t.Run("very stiff tip spring acts as a prop", func(t *testing.T) {
+		const k = 1e18 // N/m, 1e13 times the cantilever's tip stiffness 3EI/L³
+		m := Model{Segments: member(tL),
+			Supports:        []Support{{X: 0, Kind: Fixed}, {X: tL, Kind: Spring, Stiffness: [3]float64{0, k, 0}}},
+			DistributedLoad: []DistributedLoad{uniformLoad(Transverse, 0, tL, -tQ, -tQ)}}
+		e, err := SolveExact(&m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		// Propped cantilever, prop force 3qL/8, softened by the spring's compliance
+		// 3EI/(kL³) ≈ 1e-13. Source: AISC Steel Construction Manual, beam diagrams and
+		// formulas (beam fixed at one end, supported at other), from memory.
+		if got, want := reaction(e, 1, Transverse), 3*tQ*tL/8; math.Abs(got-want) > relTol*want {
+			t.Errorf("spring force %.12g, want the prop force %.12g", got, want)
+		}
+	})
+	t.Run("very soft end springs", func(t *testing.T) {
+		const k = 1.0 // N/m
+		soft := Support{Kind: Spring, Stiffness: [3]float64{k, k, 0}}
+		m := Model{Segments: member(tL), Supports: []Support{soft, soft},
+			PointLoads: []PointLoad{{X: tL / 2, Transverse: -tP}}}
+		m.Supports[1].X = tL
+		e, err := SolveExact(&m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		// Rigid settlement P/2k of both springs plus the simple-beam deflection PL³/48EI.
+		// Source: AISC Steel Construction Manual, beam diagrams and formulas (simple beam,
+		// concentrated load at centre), from memory, plus statics.
+		if got, want := at(e, tL/2).Deflection, -tP/(2*k)-tP*tL*tL*tL/(48*tEI); math.Abs(got-want) > relTol*math.Abs(want) {
+			t.Errorf("w(L/2) %.15g, want %.15g", got, want)
+		}
+		if got, want := at(e, tL/2).BendingMoment, tP*tL/4; math.Abs(got-want) > relTol*want {
+			t.Errorf("M(L/2) %.12g, want %.12g", got, want)
+		}
+	})
+	t.Run("fifty continuous spans of 20 m", func(t *testing.T) {
+		const spans, span = 50, 20.0
+		sup := []Support{{X: 0, Kind: Pinned}}
+		for i := 1; i <= spans; i++ {
+			sup = append(sup, Support{X: span * float64(i), Kind: Roller})
+		}
+		m := Model{Segments: member(spans * span), Supports: sup,
+			DistributedLoad: []DistributedLoad{uniformLoad(Transverse, 0, spans*span, -tQ, -tQ)}}
+		e, err := SolveExact(&m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		// Far from the ends every span acts as fixed at both ends (the end effect
+		// decays like (2 − √3)^k per span): reaction qL and support moment −qL²/12.
+		// Source: AISC Steel Construction Manual, beam diagrams and formulas (beam
+		// fixed at both ends, uniform load), from memory.
+		mid := spans / 2
+		if got, want := reaction(e, mid, Transverse), tQ*span; math.Abs(got-want) > relTol*want {
+			t.Errorf("middle reaction %.12g, want %.12g", got, want)
+		}
+		if got, want := at(e, span*float64(mid)).BendingMoment, -tQ*span*span/12; math.Abs(got-want) > relTol*math.Abs(want) {
+			t.Errorf("middle support moment %.12g, want %.12g", got, want)
+		}
+	})
+}
+
+// At never panics: outside the member it clamps, NaN gives NaN, and the zero
+// Exact gives empty fields.
+func TestExactAtEdges(t *testing.T) {
+	m := Model{Segments: member(tL), Supports: []Support{{X: 0, Kind: Fixed}},
+		PointLoads: []PointLoad{{X: tL, Transverse: -tP}}}
+	e, err := SolveExact(&m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got, want := e.At(tL+1, Right).Deflection, e.At(tL, Left).Deflection; got != want {
+		t.Errorf("beyond the end: w = %g, want the end value %g", got, want)
+	}
+	if got, want := e.At(-1, Left).BendingMoment, e.At(0, Right).BendingMoment; got != want {
+		t.Errorf("before the start: M = %g, want the end value %g", got, want)
+	}
+	if got := e.At(math.NaN(), Right).Deflection; !math.IsNaN(got) {
+		t.Errorf("At(NaN) deflection = %g, want NaN", got)
+	}
+	var zero Exact
+	if got := zero.At(1, Right); got != (Fields{X: 1}) {
+		t.Errorf("zero Exact: At = %+v, want empty fields", got)
+	}
+}
+
+// BenchmarkSolveExact times a member with 100 stretches (101 supports).
+func BenchmarkSolveExact(b *testing.B) {
+	sup := []Support{{X: 0, Kind: Pinned}}
+	for i := 1; i <= 100; i++ {
+		sup = append(sup, Support{X: float64(i), Kind: Roller})
+	}
+	m := Model{Segments: member(100), Supports: sup,
+		DistributedLoad: []DistributedLoad{uniformLoad(Transverse, 0, 100, -tQ, -2*tQ)}}
+	for b.Loop() {
+		if _, err := SolveExact(&m); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
