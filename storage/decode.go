@@ -224,7 +224,9 @@ func join(path, key string) string {
 // get returns the value of key, or nil when it is absent (reported when required).
 // hint tells what to add.
 func (f *fields) get(key string, required bool, hint string) *node {
-	f.known = append(f.known, key)
+	if !contains(f.known, key) {
+		f.known = append(f.known, key)
+	}
 	if f.n == nil {
 		return nil
 	}
@@ -395,26 +397,18 @@ func (r *reader) project(top *fields) *Project {
 }
 
 func (r *reader) units(f *fields) {
-	declared := map[string]string{
-		"length": siUnits.Length, "area": siUnits.Area, "second_moment": siUnits.SecondMoment,
-		"force": siUnits.Force, "moment": siUnits.Moment, "line_load": siUnits.LineLoad,
-		"stress": siUnits.Stress, "density": siUnits.Density, "acceleration": siUnits.Acceleration,
-		"thermal_expansion": siUnits.ThermalExpansion, "temperature_change": siUnits.Temperature,
-		"rotation": siUnits.Rotation, "spring": siUnits.Spring, "rotational_spring": siUnits.RotationalSpring,
-	}
-	for _, key := range unitKeys {
-		want := declared[key]
-		got := f.text(key, true, fmt.Sprintf("%q: %q", key, want))
-		if f.n != nil && f.n.fields[key] != nil && got != want && f.n.fields[key].kind == stringNode {
-			f.r.add(join(f.path, key), "declares %q, but Stave files hold SI base units only; convert the values to %s and declare %q", got, want, want)
+	for _, u := range siUnits {
+		v := f.get(u.Quantity, true, fmt.Sprintf("%q: %q", u.Quantity, u.Unit))
+		switch {
+		case v == nil:
+		case v.kind != stringNode:
+			r.add(join(f.path, u.Quantity), "expected the unit %q in quotes, found %s", u.Unit, v.describe())
+		case v.text != u.Unit:
+			r.add(join(f.path, u.Quantity), "declares %q, but Stave files hold SI base units only; convert the values to %s and declare %q", v.text, u.Unit, u.Unit)
 		}
 	}
 	f.finish()
 }
-
-// unitKeys lists the unit declaration's keys in file order.
-var unitKeys = []string{"length", "area", "second_moment", "force", "moment", "line_load", "stress",
-	"density", "acceleration", "thermal_expansion", "temperature_change", "rotation", "spring", "rotational_spring"}
 
 func (r *reader) segment(f *fields) fem.Segment {
 	s := fem.Segment{Start: f.number("start", "m", true), End: f.number("end", "m", true)}
@@ -445,7 +439,7 @@ func (r *reader) support(f *fields) fem.Support {
 	kindPath := join(f.path, "kind")
 	name := f.text("kind", true, `"kind": one of `+supportKindList)
 	kind, known := fem.ParseSupportKind(name)
-	if !known && f.n != nil && f.n.fields["kind"] != nil && f.n.fields["kind"].kind == stringNode {
+	if !known && f.holds("kind", stringNode) {
 		r.add(kindPath, "%q is not a support kind; use %s", name, supportKindList)
 	}
 	s.Kind = kind
@@ -463,7 +457,7 @@ func (r *reader) support(f *fields) fem.Support {
 	units := [3]string{"m", "m", "rad"}
 	for d, name := range motionNames {
 		s.Settlement[d] = settlement.number(name, units[d], false)
-		if settlement.n != nil && settlement.n.fields[name] != nil && known && !kind.Restrains(fem.Dof(d)) {
+		if settlement.holds(name, numberNode) && known && !kind.Restrains(fem.Dof(d)) {
 			r.add(join(settlement.path, name), "a %s support leaves the %s motion free, so it cannot have a settlement there; remove it", kind, name)
 		}
 	}
@@ -487,7 +481,7 @@ func (r *reader) load(p *Project, f *fields) {
 		p.LoadOrder = append(p.LoadOrder, DistributedLoad)
 		p.Model.DistributedLoad = append(p.Model.DistributedLoad, r.distributed(f))
 	default:
-		if f.n != nil && f.n.fields["kind"] != nil && f.n.fields["kind"].kind == stringNode {
+		if f.holds("kind", stringNode) {
 			r.add(join(f.path, "kind"), "%q is not a load kind; use \"point\" or \"distributed\"", kind)
 		}
 		return // the other keys depend on the kind
@@ -530,7 +524,7 @@ func describeList(n *node) string {
 
 func (r *reader) view(f *fields) View {
 	v := DefaultView()
-	if units := f.text("units", false, ""); units != "" || (f.n != nil && f.n.fields["units"] != nil) {
+	if units := f.text("units", false, ""); f.holds("units", stringNode) {
 		v.Units = UnitSystem(units)
 	}
 	o := f.object("overlays", false, "")
@@ -555,8 +549,13 @@ func (r *reader) view(f *fields) View {
 // numberOr reads an optional number that defaults to def when absent.
 func (f *fields) numberOr(key, unit string, def float64) float64 {
 	if f.n == nil || f.n.fields[key] == nil {
-		f.known = append(f.known, key)
+		f.get(key, false, "")
 		return def
 	}
 	return f.number(key, unit, false)
+}
+
+// holds reports whether the object has key with a value of the given kind.
+func (f *fields) holds(key string, kind nodeKind) bool {
+	return f.n != nil && f.n.fields[key] != nil && f.n.fields[key].kind == kind
 }

@@ -22,33 +22,17 @@ const Version = 1
 // order and files diff well. Optional values are left out when zero.
 type (
 	fileProject struct {
-		Format            string        `json:"format"`
-		Version           int           `json:"version"`
-		Units             fileUnits     `json:"units"`
-		Notes             fileNotes     `json:"notes,omitzero"`
-		Member            fileMember    `json:"member"`
-		Supports          []fileSupport `json:"supports"`
-		Loads             []any         `json:"loads,omitempty"`
-		SelfWeight        *fileGravity  `json:"self_weight,omitempty"`
-		TemperatureChange number        `json:"temperature_change,omitempty"`
-		Mesh              fileMesh      `json:"mesh"`
-		View              fileView      `json:"view"`
-	}
-	fileUnits struct {
-		Length           string `json:"length"`
-		Area             string `json:"area"`
-		SecondMoment     string `json:"second_moment"`
-		Force            string `json:"force"`
-		Moment           string `json:"moment"`
-		LineLoad         string `json:"line_load"`
-		Stress           string `json:"stress"`
-		Density          string `json:"density"`
-		Acceleration     string `json:"acceleration"`
-		ThermalExpansion string `json:"thermal_expansion"`
-		Temperature      string `json:"temperature_change"`
-		Rotation         string `json:"rotation"`
-		Spring           string `json:"spring"`
-		RotationalSpring string `json:"rotational_spring"`
+		Format            string          `json:"format"`
+		Version           int             `json:"version"`
+		Units             unitDeclaration `json:"units"`
+		Notes             fileNotes       `json:"notes,omitzero"`
+		Member            fileMember      `json:"member"`
+		Supports          []fileSupport   `json:"supports"`
+		Loads             []any           `json:"loads,omitempty"`
+		SelfWeight        *fileGravity    `json:"self_weight,omitempty"`
+		TemperatureChange number          `json:"temperature_change,omitempty"`
+		Mesh              fileMesh        `json:"mesh"`
+		View              fileView        `json:"view"`
 	}
 	fileNotes struct {
 		Project  string `json:"project,omitempty"`
@@ -130,22 +114,38 @@ type (
 	}
 )
 
-// siUnits is the only unit declaration a version 1 file may carry.
-var siUnits = fileUnits{
-	Length:           "m",
-	Area:             "m²",
-	SecondMoment:     "m⁴",
-	Force:            "N",
-	Moment:           "N·m",
-	LineLoad:         "N/m",
-	Stress:           "Pa",
-	Density:          "kg/m³",
-	Acceleration:     "m/s²",
-	ThermalExpansion: "1/K",
-	Temperature:      "K",
-	Rotation:         "rad",
-	Spring:           "N/m",
-	RotationalSpring: "N·m/rad",
+// siUnits is the only unit declaration a version 1 file may carry, in file order.
+var siUnits = unitDeclaration{
+	{"length", "m"},
+	{"area", "m²"},
+	{"second_moment", "m⁴"},
+	{"force", "N"},
+	{"moment", "N·m"},
+	{"line_load", "N/m"},
+	{"stress", "Pa"},
+	{"density", "kg/m³"},
+	{"acceleration", "m/s²"},
+	{"thermal_expansion", "1/K"},
+	{"temperature_change", "K"},
+	{"rotation", "rad"},
+	{"spring", "N/m"},
+	{"rotational_spring", "N·m/rad"},
+}
+
+// unitDeclaration is the "units" object: what each kind of value is measured in.
+type unitDeclaration []struct{ Quantity, Unit string }
+
+func (u unitDeclaration) MarshalJSON() ([]byte, error) {
+	var b bytes.Buffer
+	b.WriteByte('{')
+	for i, e := range u {
+		if i > 0 {
+			b.WriteByte(',')
+		}
+		fmt.Fprintf(&b, "%q:%q", e.Quantity, e.Unit)
+	}
+	b.WriteByte('}')
+	return b.Bytes(), nil
 }
 
 // Names of the load kinds and directions in files.
