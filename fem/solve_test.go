@@ -2,6 +2,7 @@ package fem
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"testing"
 )
@@ -322,5 +323,30 @@ func TestMechanisms(t *testing.T) {
 		if _, err := Solve(withUniform(testModel(sup...), testQ)); err != nil {
 			t.Errorf("supports %v: %v", sup, err)
 		}
+	}
+}
+
+// BenchmarkSolve shows how Solve scales with the element count (it should be linear).
+func BenchmarkSolve(b *testing.B) {
+	for _, n := range []int{1_000, 10_000, 100_000} {
+		b.Run(fmt.Sprintf("elements=%d", n), func(b *testing.B) {
+			m := mixedModel(n)
+			for b.Loop() {
+				if _, err := Solve(m); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}
+
+// BenchmarkSample evaluates 10 points in each of 100,000 elements.
+func BenchmarkSample(b *testing.B) {
+	s, err := Solve(mixedModel(100_000))
+	if err != nil {
+		b.Fatal(err)
+	}
+	for b.Loop() {
+		_ = s.Sample(10)
 	}
 }

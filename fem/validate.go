@@ -33,8 +33,9 @@ func (e *ValidationError) Error() string {
 	return b.String()
 }
 
-// Memory limits for a mesh request. bytesPerElement was measured with
-// TestBytesPerElement (beam with a linear bar, one solve, rounded up).
+// Memory limits for a mesh request. Solve allocates about 520 (linear bar) to
+// 650 (quadratic bar) bytes per element (TestBytesPerElement); the margin
+// covers sampling the fields and the copies a caller keeps.
 const (
 	memoryLimit     = 8 << 30 // bytes
 	bytesPerElement = 1200
