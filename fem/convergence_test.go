@@ -167,48 +167,35 @@ func checkRate(t *testing.T, what string, hs, errs, floors []float64, want float
 	}
 }
 
+// TestConvergenceRates fits the observed rates twice: from the errors
+// measured here and from fem.Compare, the routine the program reports errors
+// with; both must match theory, and Compare's integrals must match these.
 func TestConvergenceRates(t *testing.T) {
 	for _, c := range convergenceCases() {
 		t.Run(c.name, func(t *testing.T) {
 			hs, floors, sols, ex := study(t, c)
-			var l2, energy, stress []float64
-			for _, sol := range sols {
-				m := measureErrors(sol, ex, c.stress)
-				l2, energy, stress = append(l2, m.l2), append(energy, m.energy), append(stress, m.maxStress)
-			}
-			checkRate(t, "relative L2 displacement error", hs, l2, floors, c.l2)
-			checkRate(t, "relative energy-norm error", hs, energy, floors, c.energy)
-			checkRate(t, "largest "+c.stress.String()+" error", hs, stress, floors, c.maxStress)
-		})
-	}
-}
-
-// TestConvergenceCompare measures the same rates through fem.Compare, the
-// routine the program reports errors with, and checks it against the
-// independent measures above.
-func TestConvergenceCompare(t *testing.T) {
-	for _, c := range convergenceCases() {
-		t.Run(c.name, func(t *testing.T) {
-			hs, floors, sols, ex := study(t, c)
-			var l2, energy, stress []float64
+			var own, reported [3][]float64 // L2, energy, largest stress
 			for i, sol := range sols {
-				norms := fem.Compare(sol, ex)
-				own := measureErrors(sol, ex, c.stress)
+				m, norms := measureErrors(sol, ex, c.stress), fem.Compare(sol, ex)
 				// Both are integrals of the same fields; they agree unless one
 				// integrates too coarsely.
-				for _, pair := range []struct {
-					name      string
-					got, want float64
-				}{{"RelativeL2", norms.RelativeL2, own.l2}, {"RelativeEnergy", norms.RelativeEnergy, own.energy}} {
-					if !(math.Abs(pair.got-pair.want) <= 1e-3*pair.want) {
-						t.Errorf("%d elements: Compare %s = %.6g, quadrature here gives %.6g", refinements[i], pair.name, pair.got, pair.want)
-					}
+				if !(math.Abs(norms.RelativeL2-m.l2) <= 1e-3*m.l2) || !(math.Abs(norms.RelativeEnergy-m.energy) <= 1e-3*m.energy) {
+					t.Errorf("%d elements: Compare gives relative L2 %.6g and energy %.6g, quadrature here %.6g and %.6g",
+						refinements[i], norms.RelativeL2, norms.RelativeEnergy, m.l2, m.energy)
 				}
-				l2, energy, stress = append(l2, norms.RelativeL2), append(energy, norms.RelativeEnergy), append(stress, norms.MaxStressRelative)
+				for k, v := range [3]float64{m.l2, m.energy, m.maxStress} {
+					own[k] = append(own[k], v)
+				}
+				for k, v := range [3]float64{norms.RelativeL2, norms.RelativeEnergy, norms.MaxStressRelative} {
+					reported[k] = append(reported[k], v)
+				}
 			}
-			checkRate(t, "Compare RelativeL2", hs, l2, floors, c.l2)
-			checkRate(t, "Compare RelativeEnergy", hs, energy, floors, c.energy)
-			checkRate(t, "Compare MaxStressRelative", hs, stress, floors, c.maxStress)
+			names := [3]string{"relative L2 displacement error", "relative energy-norm error", "largest " + c.stress.String() + " error"}
+			rates := [3]float64{c.l2, c.energy, c.maxStress}
+			for k := range 3 {
+				checkRate(t, names[k], hs, own[k], floors, rates[k])
+				checkRate(t, "Compare: "+names[k], hs, reported[k], floors, rates[k])
+			}
 		})
 	}
 }

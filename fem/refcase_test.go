@@ -276,7 +276,8 @@ type refCase struct {
 type judge struct {
 	field  fem.Field
 	length float64 // L, m
-	// exactAt says whether theory makes q exact at x, so that only round-off is allowed.
+	// exactAt says whether theory makes q exact at x, so that only round-off
+	// is allowed (finite element judges only).
 	exactAt func(q quantity, x float64) bool
 	allowed func(q quantity, x float64) float64
 	samples []fem.Fields
@@ -516,7 +517,6 @@ func exactJudge(ex *fem.Exact, m *fem.Model) judge {
 	return judge{
 		field:   ex,
 		length:  L,
-		exactAt: func(quantity, float64) bool { return true },
 		allowed: func(q quantity, _ float64) float64 { return roundOff * s.of(q) },
 		samples: samples,
 	}

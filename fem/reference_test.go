@@ -46,7 +46,7 @@ func referenceCases() []refCase {
 			model: fem.Model{Segments: refMember(L), Supports: []fem.Support{{X: 0, Kind: fem.Fixed}},
 				PointLoads: []fem.PointLoad{{X: L, Axial: F}}},
 			reactions: [][3]float64{{-F, 0, 0}},
-			// Strain energy U = N²L/(2EA) of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = N²L/(2EA) of the book's fields (Clapeyron's theorem; Gere & Goodno, strain energy, from memory).
 			energy: F * F * L / (2 * EA),
 			points: []pointCheck{
 				{x: L, q: axialDisplacement, want: F * L / EA},
@@ -66,7 +66,7 @@ func referenceCases() []refCase {
 			model: fem.Model{Segments: refMember(L), Supports: []fem.Support{{X: 0, Kind: fem.Fixed}},
 				DistributedLoad: []fem.DistributedLoad{uniformLoad(fem.Axial, 0, L, p)}},
 			reactions: [][3]float64{{-p * L, 0, 0}},
-			// Strain energy U = ∫N²/(2EA) dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = ∫N²/(2EA) dx of the book's fields (Gere & Goodno, strain energy, from memory).
 			energy: p * p * L * L * L / (6 * EA),
 			points: []pointCheck{
 				{x: L, q: axialDisplacement, want: p * L * L / (2 * EA)},
@@ -88,7 +88,7 @@ func referenceCases() []refCase {
 				DistributedLoad: []fem.DistributedLoad{{Direction: fem.Axial,
 					Points: []fem.LoadPoint{{X: 0, Intensity: 0}, {X: L, Intensity: p}}}}},
 			reactions: [][3]float64{{-p * L / 2, 0, 0}},
-			// Strain energy U = ∫N²/(2EA) dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = ∫N²/(2EA) dx of the book's fields (Gere & Goodno, strain energy, from memory).
 			energy: p * p * L * L * L / (15 * EA),
 			points: []pointCheck{
 				{x: L, q: axialDisplacement, want: p * L * L / (3 * EA)},
@@ -112,7 +112,7 @@ func referenceCases() []refCase {
 				Supports:   []fem.Support{{X: 0, Kind: fem.Fixed}},
 				PointLoads: []fem.PointLoad{{X: L, Axial: F}}},
 			reactions: [][3]float64{{-F, 0, 0}},
-			// Strain energy U = Σ N²Lᵢ/(2EAᵢ) of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = Σ N²Lᵢ/(2EAᵢ) of the book's fields (Clapeyron's theorem; Gere & Goodno, strain energy, from memory).
 			energy: 3 * F * F * L / (4 * EA),
 			points: []pointCheck{
 				{x: L / 2, q: axialDisplacement, want: F * (L / 2) / EA},
@@ -136,7 +136,7 @@ func referenceCases() []refCase {
 				Supports:   []fem.Support{{X: 0, Kind: fem.Fixed}, {X: L, Kind: fem.Fixed}},
 				PointLoads: []fem.PointLoad{{X: a, Axial: F}}},
 			reactions: [][3]float64{{-F * b / L, 0, 0}, {-F * a / L, 0, 0}},
-			// Strain energy U = F·u(a)/2 of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = F·u(a)/2 of the book's fields (Clapeyron's theorem; Gere & Goodno, strain energy, from memory).
 			energy: F * F * a * b / (2 * L * EA),
 			points: []pointCheck{
 				{x: a, q: axialDisplacement, want: F * a * b / (L * EA)},
@@ -158,7 +158,7 @@ func referenceCases() []refCase {
 				Supports:          []fem.Support{{X: 0, Kind: fem.Fixed}, {X: L, Kind: fem.Fixed}},
 				TemperatureChange: dT},
 			reactions: [][3]float64{{EA * refAlpha * dT, 0, 0}, {-EA * refAlpha * dT, 0, 0}},
-			// Strain energy U = N²L/(2EA) of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = N²L/(2EA) of the book's fields (Clapeyron's theorem; Gere & Goodno, strain energy, from memory).
 			energy: EA * refAlpha * dT * refAlpha * dT * L / 2,
 			points: []pointCheck{
 				{x: L / 2, q: axialDisplacement, want: 0},
@@ -177,7 +177,7 @@ func referenceCases() []refCase {
 			model: fem.Model{Segments: refMember(L), Supports: []fem.Support{{X: 0, Kind: fem.Fixed}},
 				Gravity: [2]float64{fem.StandardGravity, 0}},
 			reactions: [][3]float64{{-gamma * refA * L, 0, 0}},
-			// Strain energy U = ∫N²/(2EA) dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = ∫N²/(2EA) dx of the book's fields (Gere & Goodno, strain energy, from memory).
 			energy: gamma * gamma * refA * L * L * L / (6 * refE),
 			points: []pointCheck{
 				{x: L, q: axialDisplacement, want: gamma * L * L / (2 * refE)},
@@ -198,7 +198,7 @@ func referenceCases() []refCase {
 			model: fem.Model{Segments: refMember(L), Supports: []fem.Support{{X: 0, Kind: fem.Fixed}},
 				PointLoads: []fem.PointLoad{{X: L, Transverse: P}}},
 			reactions: [][3]float64{{0, -P, -P * L}},
-			// Strain energy U = ∫M²/(2EI) dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = ∫M²/(2EI) dx of the book's fields (Gere & Goodno, strain energy, from memory).
 			energy: P * P * L * L * L / (6 * EI),
 			points: []pointCheck{
 				{x: L, q: deflection, want: P * L * L * L / (3 * EI)},
@@ -221,7 +221,7 @@ func referenceCases() []refCase {
 			model: fem.Model{Segments: refMember(L), Supports: []fem.Support{{X: 0, Kind: fem.Fixed}},
 				DistributedLoad: []fem.DistributedLoad{uniformLoad(fem.Transverse, 0, L, q)}},
 			reactions: [][3]float64{{0, -q * L, -q * L * L / 2}},
-			// Strain energy U = ∫M²/(2EI) dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = ∫M²/(2EI) dx of the book's fields (Gere & Goodno, strain energy, from memory).
 			energy: q * q * L * L * L * L * L / (40 * EI),
 			points: []pointCheck{
 				{x: L, q: deflection, want: q * L * L * L * L / (8 * EI)},
@@ -246,7 +246,7 @@ func referenceCases() []refCase {
 				DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse,
 					Points: []fem.LoadPoint{{X: 0, Intensity: q}, {X: L, Intensity: 0}}}}},
 			reactions: [][3]float64{{0, -q * L / 2, -q * L * L / 6}},
-			// Strain energy U = ∫M²/(2EI) dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = ∫M²/(2EI) dx of the book's fields (Gere & Goodno, strain energy, from memory).
 			energy: q * q * L * L * L * L * L / (504 * EI),
 			points: []pointCheck{
 				{x: L, q: deflection, want: q * L * L * L * L / (30 * EI)},
@@ -268,7 +268,7 @@ func referenceCases() []refCase {
 			model: fem.Model{Segments: refMember(L), Supports: []fem.Support{{X: 0, Kind: fem.Fixed}},
 				PointLoads: []fem.PointLoad{{X: L, Moment: M0}}},
 			reactions: [][3]float64{{0, 0, -M0}},
-			// Strain energy U = M0²L/(2EI) of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = M0²L/(2EI) of the book's fields (Clapeyron's theorem; Gere & Goodno, strain energy, from memory).
 			energy: M0 * M0 * L / (2 * EI),
 			points: []pointCheck{
 				{x: L, q: deflection, want: M0 * L * L / (2 * EI)},
@@ -291,7 +291,7 @@ func referenceCases() []refCase {
 				Supports:   []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L, Kind: fem.Roller}},
 				PointLoads: []fem.PointLoad{{X: L / 2, Transverse: P}}},
 			reactions: [][3]float64{{0, -P / 2, 0}, {0, -P / 2, 0}},
-			// Strain energy U = P·w/2 of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = P·w/2 of the book's fields (Clapeyron's theorem; Gere & Goodno, strain energy, from memory).
 			energy: P * P * L * L * L / (96 * EI),
 			points: []pointCheck{
 				{x: 0, q: rotation, want: P * L * L / (16 * EI)},
@@ -317,7 +317,7 @@ func referenceCases() []refCase {
 				Supports:   []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L, Kind: fem.Roller}},
 				PointLoads: []fem.PointLoad{{X: a, Transverse: P}}},
 			reactions: [][3]float64{{0, -P * b / L, 0}, {0, -P * a / L, 0}},
-			// Strain energy U = P·w(a)/2 of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = P·w(a)/2 of the book's fields (Clapeyron's theorem; Gere & Goodno, strain energy, from memory).
 			energy: P * P * a * a * b * b / (6 * EI * L),
 			points: []pointCheck{
 				{x: a, q: deflection, want: P * a * a * b * b / (3 * EI * L)},
@@ -340,7 +340,7 @@ func referenceCases() []refCase {
 				Supports:        []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L, Kind: fem.Roller}},
 				DistributedLoad: []fem.DistributedLoad{uniformLoad(fem.Transverse, 0, L, q)}},
 			reactions: [][3]float64{{0, -q * L / 2, 0}, {0, -q * L / 2, 0}},
-			// Strain energy U = ∫M²/(2EI) dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = ∫M²/(2EI) dx of the book's fields (Gere & Goodno, strain energy, from memory).
 			energy: q * q * L * L * L * L * L / (240 * EI),
 			points: []pointCheck{
 				{x: 0, q: rotation, want: q * L * L * L / (24 * EI)},
@@ -365,7 +365,7 @@ func referenceCases() []refCase {
 				Supports:        []fem.Support{{X: 0, Kind: fem.Fixed}, {X: L, Kind: fem.Fixed}},
 				DistributedLoad: []fem.DistributedLoad{uniformLoad(fem.Transverse, 0, L, q)}},
 			reactions: [][3]float64{{0, -q * L / 2, -q * L * L / 12}, {0, -q * L / 2, q * L * L / 12}},
-			// Strain energy U = ½∫q·w dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = ½∫q·w dx of the book's fields (Clapeyron's theorem; Gere & Goodno, strain energy, from memory).
 			energy: q * q * L * L * L * L * L / (1440 * EI),
 			points: []pointCheck{
 				{x: L / 2, q: bendingMoment, want: -q * L * L / 24},
@@ -394,7 +394,7 @@ func referenceCases() []refCase {
 				{0, -P * b * b * (3*a + b) / (L * L * L), -P * a * b * b / (L * L)},
 				{0, -P * a * a * (a + 3*b) / (L * L * L), P * a * a * b / (L * L)},
 			},
-			// Strain energy U = P·w(a)/2 of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = P·w(a)/2 of the book's fields (Clapeyron's theorem; Gere & Goodno, strain energy, from memory).
 			energy: P * P * a * a * a * b * b * b / (6 * EI * L * L * L),
 			points: []pointCheck{
 				{x: a, q: deflection, want: P * a * a * a * b * b * b / (3 * EI * L * L * L)},
@@ -418,7 +418,7 @@ func referenceCases() []refCase {
 				Supports:        []fem.Support{{X: 0, Kind: fem.Fixed}, {X: L, Kind: fem.Roller}},
 				DistributedLoad: []fem.DistributedLoad{uniformLoad(fem.Transverse, 0, L, q)}},
 			reactions: [][3]float64{{0, -5 * q * L / 8, -q * L * L / 8}, {0, -3 * q * L / 8, 0}},
-			// Strain energy U = ½∫q·w dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = ½∫q·w dx of the book's fields (Clapeyron's theorem; Gere & Goodno, strain energy, from memory).
 			energy: q * q * L * L * L * L * L / (640 * EI),
 			points: []pointCheck{
 				{x: L / 2, q: deflection, want: propped(L/2, L)},
@@ -444,7 +444,7 @@ func referenceCases() []refCase {
 					{X: 2 * span, Kind: fem.Roller}},
 				DistributedLoad: []fem.DistributedLoad{uniformLoad(fem.Transverse, 0, 2*span, q)}},
 			reactions: [][3]float64{{0, -3 * q * span / 8, 0}, {0, -10 * q * span / 8, 0}, {0, -3 * q * span / 8, 0}},
-			// Strain energy U = ½∫q·w dx of the book's fields (Clapeyron; Gere & Goodno, strain energy, from memory).
+			// Strain energy U = ½∫q·w dx of the book's fields (Clapeyron's theorem; Gere & Goodno, strain energy, from memory).
 			energy: q * q * span * span * span * span * span / (320 * EI),
 			points: []pointCheck{
 				{x: span, q: rotation, want: 0},
