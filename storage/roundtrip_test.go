@@ -67,3 +67,15 @@ func lineDiff(want, got []byte) string {
 	}
 	return "(same lines)"
 }
+
+// docs/format.md shows the demo file as its complete example; keep them the same.
+func TestFormatDocShowsTheDemoFile(t *testing.T) {
+	doc, err := os.ReadFile(filepath.Join("..", "docs", "format.md"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	demo := []byte(readDemo(t))
+	if !bytes.Contains(doc, append([]byte("```json\n"), demo...)) {
+		t.Errorf("docs/format.md does not hold testdata/demo.json as its example; paste the file in again")
+	}
+}

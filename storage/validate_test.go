@@ -23,16 +23,17 @@ func readDemo(t *testing.T) string {
 func TestDecodeReportsEachKindOfProblem(t *testing.T) {
 	demo := readDemo(t)
 	tests := []struct {
-		name          string
-		old, new      string
-		path, phrase  string
-		replaceWholly bool // new is the whole file
+		name         string
+		old, new     string // the edit of the demo file
+		whole        string // or instead the whole file
+		suffix       string // or text added after the demo file
+		path, phrase string
 	}{
 		{name: "not JSON", old: `"version": 1,`, new: `"version": 1,,`, path: "", phrase: "line 3"},
-		{name: "cut off", replaceWholly: true, new: `{"format": "stave-member", "version": 1`, path: "", phrase: "ends too early"},
-		{name: "text after the project", old: "}\n", new: "}\n", replaceWholly: true, path: "", phrase: "more text follows"},
+		{name: "cut off", whole: `{"format": "stave-member", "version": 1`, path: "", phrase: "ends too early"},
+		{name: "text after the project", suffix: "}\n", path: "", phrase: "more text follows"},
 		{name: "duplicate key", old: `"format": "stave-member",`, new: `"format": "stave-member", "format": "stave-member",`, path: "", phrase: "appears twice"},
-		{name: "not an object", replaceWholly: true, new: "[1, 2]\n", path: "", phrase: "not a Stave project"},
+		{name: "not an object", whole: "[1, 2]\n", path: "", phrase: "not a Stave project"},
 		{name: "format missing", old: `"format": "stave-member",`, new: ``, path: "format", phrase: "missing"},
 		{name: "format of another program", old: `"format": "stave-member"`, new: `"format": "spreadsheet"`, path: "format", phrase: "not a Stave project file"},
 		{name: "newer version", old: `"version": 1`, new: `"version": 3`, path: "version", phrase: "newer Stave (format version 3); this version reads up to 1 — update Stave"},
@@ -65,14 +66,12 @@ func TestDecodeReportsEachKindOfProblem(t *testing.T) {
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
-			text := tt.new
-			if !tt.replaceWholly {
+			text := tt.whole
+			if text == "" {
 				if !strings.Contains(demo, tt.old) {
 					t.Fatalf("the demo file has no %q to edit", tt.old)
 				}
-				text = strings.Replace(demo, tt.old, tt.new, 1)
-			} else if tt.old != "" {
-				text = demo + tt.new
+				text = strings.Replace(demo, tt.old, tt.new, 1) + tt.suffix
 			}
 			p, err := Unmarshal([]byte(text))
 			if p != nil {
