@@ -9,12 +9,14 @@ import (
 // ErrorNorms measure how far a finite element solution is from the exact one.
 //
 // The relative measures divide by the exact solution's measure. Where that
-// measure vanishes (to round-off) the ratio would be 0/0 or x/0, so Compare
-// divides instead by a scale of the problem, the larger of the exact and the
-// finite element measures (and, for stresses and energy, the thermal term
-// E·α·ΔT that N = EA·(u' − αΔT) cancels): an error at round-off level then
-// reads 0, and a real error reads at most 2. The relative measures thus stay
-// finite and can be plotted and stored, unlike +Inf or NaN.
+// measure vanishes (to round-off: a free bar heated, a determinate member
+// whose support settles) the ratio would be 0/0 or x/0, and round-off noise
+// would read as a 100 % error. Compare then divides instead by a scale of the
+// problem: the same measure built from the sizes of the terms that cancel in
+// N and M, exact (for example E·α·ΔT against E·u') and finite element (nodal
+// values times the largest shape-function derivatives). An error at round-off level then
+// reads 0, a real error a finite ratio; the relative measures stay finite and
+// can be plotted and stored, unlike +Inf or NaN.
 type ErrorNorms struct {
 	MaxDeflection     float64 // max |w_h − w| over the member, m
 	MaxAxial          float64 // max |u_h − u|, m
@@ -48,7 +50,7 @@ func Compare(s *Solution, e *Exact) ErrorNorms {
 	if s == nil || e == nil {
 		return out
 	}
-	var maxStress, maxStressFE float64
+	var maxStress, stressTerms, stressTermsFE float64
 	for _, el := range s.Mesh.Elements {
 		for j := 0; j <= comparePoints; j++ {
 			x, side := el.Start+(el.End-el.Start)*float64(j)/comparePoints, Right
@@ -60,22 +62,24 @@ func Compare(s *Solution, e *Exact) ErrorNorms {
 			out.MaxAxial = math.Max(out.MaxAxial, math.Abs(h.AxialDisplacement-ex.AxialDisplacement))
 			out.MaxStress = math.Max(out.MaxStress, math.Abs(h.CombinedStress-ex.CombinedStress))
 			maxStress = math.Max(maxStress, math.Abs(ex.CombinedStress))
-			maxStressFE = math.Max(maxStressFE, math.Abs(h.CombinedStress))
+			sec := s.Model.Segments[el.Segment].Section
+			na, ma := e.actionMagnitudes(x, side)
+			stressTerms = math.Max(stressTerms, na/sec.Area+ma*sec.FibreDistance/sec.SecondMoment)
 		}
 	}
 	// Squared integrals: displacement error, exact and finite element
 	// displacements; energy of the error, of the exact and of the finite
-	// element solution, and of the thermal force EA·αΔT.
-	var dispErr, disp, dispFE, energyErr, energy, energyFE, energyThermal float64
-	var thermalStress float64
+	// element solution, and of the terms that make the exact N and M.
+	var dispErr, disp, dispFE, energyErr, energy, energyTerms, energyTermsFE float64
 	xs, ws := make([]float64, gaussPoints), make([]float64, gaussPoints)
 	for _, el := range s.Mesh.Elements {
 		seg := s.Model.Segments[el.Segment]
 		ea := seg.Material.Elastic * seg.Section.Area
 		ei := seg.Material.Elastic * seg.Section.SecondMoment
-		thermal := seg.Material.ThermalExpansion * s.Model.TemperatureChange
-		thermalStress = math.Max(thermalStress, math.Abs(seg.Material.Elastic*thermal))
-		energyThermal += ea * thermal * thermal * (el.End - el.Start)
+		na, ma := s.actionMagnitudes(el)
+		energyTermsFE += (na*na/ea + ma*ma/ei) * (el.End - el.Start)
+		sec := seg.Section
+		stressTermsFE = math.Max(stressTermsFE, na/sec.Area+ma*sec.FibreDistance/sec.SecondMoment)
 		quad.Legendre{}.FixedLocations(xs, ws, el.Start, el.End)
 		for q, x := range xs {
 			h, ex := s.At(x, Right), e.At(x, Right)
@@ -86,27 +90,46 @@ func Compare(s *Solution, e *Exact) ErrorNorms {
 			dispFE += ws[q] * (h.AxialDisplacement*h.AxialDisplacement + h.Deflection*h.Deflection)
 			energyErr += ws[q] * (dn*dn/ea + dm*dm/ei)
 			energy += ws[q] * (ex.AxialForce*ex.AxialForce/ea + ex.BendingMoment*ex.BendingMoment/ei)
-			energyFE += ws[q] * (h.AxialForce*h.AxialForce/ea + h.BendingMoment*h.BendingMoment/ei)
+			na, ma := e.actionMagnitudes(x, Right)
+			energyTerms += ws[q] * (na*na/ea + ma*ma/ei)
 		}
 	}
-	out.MaxStressRelative = relativeError(out.MaxStress, maxStress, maxStressFE, thermalStress)
-	out.RelativeL2 = relativeError(math.Sqrt(dispErr), math.Sqrt(disp), math.Sqrt(dispFE), 0)
-	out.RelativeEnergy = relativeError(math.Sqrt(energyErr), math.Sqrt(energy), math.Sqrt(energyFE), math.Sqrt(energyThermal))
+	out.MaxStressRelative = relativeError(out.MaxStress, maxStress, stressTerms, stressTermsFE)
+	out.RelativeL2 = relativeError(math.Sqrt(dispErr), math.Sqrt(disp), math.Sqrt(disp), math.Sqrt(dispFE))
+	out.RelativeEnergy = relativeError(math.Sqrt(energyErr), math.Sqrt(energy), math.Sqrt(energyTerms), math.Sqrt(energyTermsFE))
 	return out
 }
 
-// relativeError is err/exact, unless the exact measure is negligible against
-// the problem's scale (the largest of exact, finite element and other, a
-// measure of terms the exact value may cancel): then err/scale, with an error
-// at round-off level reported as 0. See ErrorNorms.
-func relativeError(err, exact, fe, other float64) float64 {
-	scale := math.Max(exact, math.Max(fe, other))
+// relativeError is err/exact, unless exact is negligible against
+// exactTerms, the same measure of the terms it sums (then it is zero to
+// round-off and the ratio means nothing). In that case the error is judged
+// against scale, the larger of exactTerms and feTerms: 0 when it is at
+// round-off level, else err/scale. See ErrorNorms.
+func relativeError(err, exact, exactTerms, feTerms float64) float64 {
+	scale := math.Max(exactTerms, feTerms)
 	switch {
-	case exact > negligible*scale:
+	case exact > negligible*exactTerms && exact > 0:
 		return err / exact
 	case err <= negligible*scale:
 		return 0
 	default:
 		return err / scale
 	}
+}
+
+// actionMagnitudes bounds the sizes of the terms the interpolation of element
+// el sums into N and M: nodal values times the largest derivatives of the
+// shape functions (1/h for the linear bar, 6/h² and 4/h for the Hermite beam,
+// per node), plus the thermal term. Round-off in N_h and M_h is relative to these.
+func (s *Solution) actionMagnitudes(el Element) (axial, bending float64) {
+	seg := s.Model.Segments[el.Segment]
+	h := el.End - el.Start
+	var u, w, theta float64
+	for _, d := range s.Displacement[el.First : el.First+2] {
+		u, w, theta = u+math.Abs(d[Axial]), w+math.Abs(d[Transverse]), theta+math.Abs(d[Rotation])
+	}
+	thermal := math.Abs(seg.Material.ThermalExpansion * s.Model.TemperatureChange)
+	axial = seg.Material.Elastic * seg.Section.Area * (u/h + thermal)
+	bending = seg.Material.Elastic * seg.Section.SecondMoment * (6*w/(h*h) + 4*theta/h)
+	return axial, bending
 }
