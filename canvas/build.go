@@ -57,6 +57,9 @@ type builder struct {
 	s        *Scene
 	u        units.System
 	occupied []rect
+	// Finite element curves: the deflection, and one per strip in layout order.
+	deflection *curve
+	feCurves   []*curve
 }
 
 // Build lays out the drawing of in for the view v.
@@ -77,6 +80,15 @@ func Build(in Input, v View) *Scene {
 			x0, x1 = x0-1.5, x1+1.5
 		}
 		b.rectangle(x0, 0, x1, v.Height, highlightColour)
+	}
+	// One walk over the elements reads the deflection and every strip.
+	if in.Solution != nil {
+		qs := []quantity{deflectionQuantity}
+		for _, st := range lay.strips {
+			qs = append(qs, st.diagram.quantity)
+		}
+		cs := in.Cache.curves(in.Solution, v, qs)
+		b.deflection, b.feCurves = cs[0], cs[1:]
 	}
 	b.sketch(lay)
 	b.diagrams(lay)

@@ -103,4 +103,18 @@ func BenchmarkBuild(b *testing.B) {
 			b.ReportMetric(float64(scenePoints(s)), "points")
 		})
 	}
+	// A hover redraw with a cache reuses the sampled curves.
+	b.Run("elements=1000000/hover", func(b *testing.B) {
+		m := demoModel(1000000)
+		in := solved(b, m)
+		in.Cache = &Cache{}
+		v := NewView(1200, 900)
+		v.Fit(m)
+		Build(in, v)
+		in.Hovering = true
+		for b.Loop() {
+			in.HoverX += 1e-4
+			Build(in, v)
+		}
+	})
 }

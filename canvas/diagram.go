@@ -41,11 +41,9 @@ func (b *builder) diagrams(lay layoutBands) {
 	for i, st := range lay.strips {
 		qs[i] = st.diagram.quantity
 	}
-	var fe, ex []*curve
+	fe := b.feCurves
+	var ex []*curve
 	var gaps []extreme
-	if b.in.Solution != nil {
-		fe = sampleCurves(b.in.Solution, b.v, qs)
-	}
 	if b.in.Exact != nil && b.in.Layers.ExactBand {
 		ex, gaps = exactCurves(b.in.Exact, b.in.Solution, b.in.Model, b.v, qs)
 	}

@@ -41,6 +41,6 @@ func rasterize(s *Scene, w, h int) image.Image {
 	}
 	c := vgimg.NewWith(vgimg.UseWH(vg.Length(w), vg.Length(h)), vgimg.UseDPI(72), vgimg.UseBackgroundColor(color.Transparent))
 	k := float64(w) / float64(s.Width)
-	drawScene(c, s, vg.Point{Y: vg.Length(h)}, k, false)
+	drawScene(c, s, vg.Point{Y: vg.Length(h)}, k, noText)
 	return c.Image()
 }

@@ -44,4 +44,6 @@ type Input struct {
 	// Highlight is an x range (m) shaded across all strips, e.g. the place of a
 	// selected check; {0, 0} means none.
 	Highlight [2]float64
+	// Cache, when not nil, keeps sampled results between builds (see Cache).
+	Cache *Cache
 }

@@ -192,3 +192,32 @@ func exactCurves(e *fem.Exact, s *fem.Solution, m *fem.Model, v View, qs []quant
 	}
 	return cs, gaps
 }
+
+// Cache keeps the sampled finite element curves between builds of the same
+// solution in the same view, so a hover or a selection change redraws without
+// reading a large solution again. The zero value is ready to use; give each
+// drawing area its own Cache and do not share one between goroutines.
+type Cache struct {
+	solution  *fem.Solution
+	x0, scale float64
+	width     float32
+	names     string
+	sampled   []*curve
+}
+
+// curves returns the sampled curves of qs, reading the solution only when the
+// solution, the view's x transform or the quantities changed.
+func (c *Cache) curves(s *fem.Solution, v View, qs []quantity) []*curve {
+	names := ""
+	for _, q := range qs {
+		names += q.name + ";"
+	}
+	if c != nil && c.solution == s && c.x0 == v.X0 && c.scale == v.Scale && c.width == v.Width && c.names == names {
+		return c.sampled
+	}
+	cs := sampleCurves(s, v, qs)
+	if c != nil {
+		*c = Cache{solution: s, x0: v.X0, scale: v.Scale, width: v.Width, names: names, sampled: cs}
+	}
+	return cs
+}

@@ -548,8 +548,7 @@ func (b *builder) scaleBar(top float32) {
 
 // deformed draws the magnified deflection over the member.
 func (b *builder) deformed(lay layoutBands) {
-	c := sampleCurves(b.in.Solution, b.v, []quantity{deflectionQuantity})
-	curve := c[0]
+	curve := b.deflection
 	peak := curve.peakAbs()
 	if peak.value == 0 {
 		return

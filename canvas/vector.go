@@ -16,8 +16,16 @@ import (
 // y-up coordinates, the top edge is origin.Y) and every length times k.
 // PNG, SVG, PDF and the calculation sheet all go through here, so they
 // cannot drift apart.
-// Text is left out when withText is false (the screen draws it natively).
-func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, withText bool) {
+// paintStyle says how drawScene treats text.
+type paintStyle int
+
+const (
+	allText  paintStyle = iota
+	noText              // the screen draws text natively
+	fauxBold            // vgpdf cannot select its own bold face: overprint the regular one
+)
+
+func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, style paintStyle) {
 	pt := func(p Point) vg.Point {
 		return vg.Point{X: origin.X + vg.Length(float64(p.X)*k), Y: origin.Y - vg.Length(float64(p.Y)*k)}
 	}
@@ -77,21 +85,25 @@ func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, withText bool)
 			fill(it.Fill, p)
 			stroke(it, p)
 		case Text:
-			if !withText {
+			if style == noText {
 				continue
 			}
-			face := textFace(it.Size*float32(k), it.Bold)
+			overprint := it.Bold && style == fauxBold
+			face := textFace(it.Size*float32(k), it.Bold && !overprint)
 			top := pt(it.At)
 			baseline := top.Y - face.Extents().Ascent - vg.Length(0.04*float64(it.Size)*k)
 			c.SetColor(it.Stroke)
 			c.FillString(face, vg.Point{X: top.X, Y: baseline}, it.Text)
+			if overprint {
+				c.FillString(face, vg.Point{X: top.X + vg.Length(0.045*float64(it.Size)*k), Y: baseline}, it.Text)
+			}
 		}
 	}
 }
 
 // paint fills the canvas white and draws the scene over it at 1 point per
 // scene pixel times k.
-func paint(c vg.Canvas, s *Scene, k float64) {
+func paint(c vg.Canvas, s *Scene, k float64, style paintStyle) {
 	w, h := vg.Length(float64(s.Width)*k), vg.Length(float64(s.Height)*k)
 	var bg vg.Path
 	bg.Move(vg.Point{})
@@ -101,7 +113,7 @@ func paint(c vg.Canvas, s *Scene, k float64) {
 	bg.Close()
 	c.SetColor(color.White)
 	c.Fill(bg)
-	drawScene(c, s, vg.Point{Y: h}, k, true)
+	drawScene(c, s, vg.Point{Y: h}, k, style)
 }
 
 // WritePNG writes the scene as a PNG of Width·scale × Height·scale pixels.
@@ -111,7 +123,7 @@ func WritePNG(w io.Writer, s *Scene, scale float64) error {
 	}
 	// At 72 dpi one point is one pixel.
 	c := vgimg.NewWith(vgimg.UseWH(vg.Length(float64(s.Width)*scale), vg.Length(float64(s.Height)*scale)), vgimg.UseDPI(72))
-	paint(c, s, scale)
+	paint(c, s, scale, allText)
 	_, err := vgimg.PngCanvas{Canvas: c}.WriteTo(w)
 	return err
 }
@@ -122,7 +134,7 @@ func WriteSVG(w io.Writer, s *Scene) error {
 		return err
 	}
 	c := vgsvg.New(vg.Length(s.Width), vg.Length(s.Height))
-	paint(c, s, 1)
+	paint(c, s, 1, allText)
 	_, err := c.WriteTo(w)
 	return err
 }
@@ -133,7 +145,7 @@ func WritePDF(w io.Writer, s *Scene) error {
 		return err
 	}
 	c := vgpdf.New(vg.Length(s.Width), vg.Length(s.Height))
-	paint(c, s, 1)
+	paint(c, s, 1, fauxBold)
 	_, err := c.WriteTo(w)
 	return err
 }

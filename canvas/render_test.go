@@ -1,0 +1,169 @@
+package canvas
+
+import (
+	"bytes"
+	"encoding/xml"
+	"image"
+	"image/png"
+	"io"
+	"regexp"
+	"strings"
+	"testing"
+
+	"fyne.io/fyne/v2"
+	fynecanvas "fyne.io/fyne/v2/canvas"
+	"fyne.io/fyne/v2/test"
+
+	"stave/fem/units"
+)
+
+func demoScene(t *testing.T) (*Scene, Input) {
+	t.Helper()
+	m := demoModel(16)
+	in := solved(t, m)
+	v := NewView(900, 800)
+	v.Fit(m)
+	return Build(in, v), in
+}
+
+func isWhite(c interface{ RGBA() (r, g, b, a uint32) }) bool {
+	r, g, b, _ := c.RGBA()
+	return r > 0xf000 && g > 0xf000 && b > 0xf000
+}
+
+// darkNear reports whether any pixel within 2 px of (x, y) is not white.
+func darkNear(img image.Image, x, y int) bool {
+	for dy := -2; dy <= 2; dy++ {
+		for dx := -2; dx <= 2; dx++ {
+			if !isWhite(img.At(x+dx, y+dy)) {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+func TestPNGSizeAndPlaces(t *testing.T) {
+	s, in := demoScene(t)
+	var buf bytes.Buffer
+	if err := WritePNG(&buf, s, 2); err != nil {
+		t.Fatal(err)
+	}
+	img, err := png.Decode(&buf)
+	if err != nil {
+		t.Fatalf("the PNG does not decode: %v", err)
+	}
+	if b := img.Bounds(); b.Dx() != 1800 || b.Dy() != 1600 {
+		t.Fatalf("PNG is %d × %d, want 1800 × 1600 (900 × 800 at scale 2)", b.Dx(), b.Dy())
+	}
+	v := NewView(900, 800)
+	v.Fit(in.Model)
+	at := func(px, py float32) (int, int) { return int(px * 2), int(py * 2) }
+	// The member line, and where the bending moment strip puts the peak under the 20 kN load.
+	if x, y := at(v.ToScreenX(1.0), s.MemberY); !darkNear(img, x, y) {
+		t.Errorf("no member drawn at pixel (%d, %d)", x, y)
+	}
+	var moment *Strip
+	for i := range s.Strips {
+		if s.Strips[i].Name == "Bending moment" {
+			moment = &s.Strips[i]
+		}
+	}
+	if moment == nil {
+		t.Fatal("no bending moment strip in the scene")
+	}
+	peak := in.Solution.At(2, 1).BendingMoment
+	py := moment.BaselineY - float32(peak/moment.UnitsPerPixel)
+	if x, y := at(v.ToScreenX(2), py); !darkNear(img, x, y) {
+		t.Errorf("no moment curve at pixel (%d, %d) where the scene puts M(2 m) = %g N·m", x, y, peak)
+	}
+	// Above the curve at the same x, inside the strip but outside the diagram, the page is blank.
+	if x, y := at(v.ToScreenX(2), moment.BaselineY-30); darkNear(img, x, y) {
+		t.Errorf("ink at pixel (%d, %d), above a sagging moment that is drawn below its axis", x, y)
+	}
+}
+
+// extremeLabel is the label Build writes for the largest sagging moment,
+// found here from the solution's own samples.
+func extremeLabel(in Input) string {
+	best := in.Solution.Sample(4)[0]
+	for _, f := range in.Solution.Sample(4) {
+		if f.BendingMoment > best.BendingMoment {
+			best = f
+		}
+	}
+	return units.SI.Format(units.Moment, best.BendingMoment) + " at " + units.SI.Format(units.Position, best.X)
+}
+
+func TestSVGParsesAndLabelsExtremes(t *testing.T) {
+	s, in := demoScene(t)
+	var buf bytes.Buffer
+	if err := WriteSVG(&buf, s); err != nil {
+		t.Fatal(err)
+	}
+	dec := xml.NewDecoder(bytes.NewReader(buf.Bytes()))
+	var texts []string
+	for {
+		tok, err := dec.Token()
+		if err == io.EOF {
+			break
+		}
+		if err != nil {
+			t.Fatalf("the SVG is not XML: %v", err)
+		}
+		if cd, ok := tok.(xml.CharData); ok {
+			texts = append(texts, string(cd))
+		}
+	}
+	want := extremeLabel(in)
+	if !strings.Contains(strings.Join(texts, "\n"), want) {
+		t.Errorf("the SVG has no text %q labelling the largest bending moment", want)
+	}
+}
+
+func TestPDFHasOnePage(t *testing.T) {
+	s, _ := demoScene(t)
+	var buf bytes.Buffer
+	if err := WritePDF(&buf, s); err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.HasPrefix(buf.Bytes(), []byte("%PDF")) {
+		t.Fatalf("the PDF starts with %q", buf.Bytes()[:8])
+	}
+	if n := countPages(buf.Bytes()); n != 1 {
+		t.Errorf("the PDF has %d pages, want 1", n)
+	}
+}
+
+var pageObject = regexp.MustCompile(`/Type\s*/Page[^s]`)
+
+func countPages(pdf []byte) int { return len(pageObject.FindAll(pdf, -1)) }
+
+func TestDrawForFyne(t *testing.T) {
+	test.NewTempApp(t)
+	s, _ := demoScene(t)
+	objs := Draw(s)
+	texts := 0
+	for _, it := range s.Items {
+		if it.Kind == Text {
+			texts++
+		}
+	}
+	if len(objs) != texts+1 {
+		t.Errorf("Draw made %d objects for %d labels, want one raster plus one per label", len(objs), texts)
+	}
+	r, ok := objs[0].(*fynecanvas.Raster)
+	if !ok {
+		t.Fatalf("first object is %T, want the raster of shapes", objs[0])
+	}
+	if r.Size() != fyne.NewSize(s.Width, s.Height) {
+		t.Errorf("raster is %v, want the scene size", r.Size())
+	}
+	img := r.Generator(int(s.Width), int(s.Height))
+	if !darkNear(img, int(s.Width/2), int(s.MemberY)) {
+		t.Error("the raster has no member line at the scene's member y")
+	}
+	if _, _, _, a := img.At(3, int(s.MemberY)).RGBA(); a != 0 {
+		t.Error("the raster background is not transparent")
+	}
+}
