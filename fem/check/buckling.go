@@ -1,0 +1,195 @@
+package check
+
+import (
+	"fmt"
+	"math"
+
+	"stave/fem"
+	"stave/fem/units"
+)
+
+// EndCondition is how a support holds one end of a column.
+type EndCondition int
+
+// End conditions, from the restraints of the supports at that end.
+const (
+	Free    EndCondition = iota // neither deflection nor rotation held
+	Pinned                      // deflection held, rotation free
+	Fixed                       // deflection and rotation held
+	Guided                      // rotation held, free to deflect sideways
+	Elastic                     // a spring: the factor is not recognised
+)
+
+var endNames = [...]string{"free", "pinned", "fixed", "guided", "elastic"}
+
+// String names the end condition.
+func (c EndCondition) String() string { return nameOf(endNames[:], int(c)) }
+
+// EffectiveLength is an effective length factor K for a pair of end
+// conditions, theoretical and as recommended for design.
+type EffectiveLength struct {
+	Ends        [2]EndCondition
+	Theoretical float64
+	Design      float64 // recommended where ideal conditions are only approximated
+	Source      string
+}
+
+// effectiveLengthSource is where the factors come from.
+const effectiveLengthSource = "AISC Specification Commentary, Table C-A-7.1, case (%s) (from memory)"
+
+// EffectiveLengths lists the factors for the end conditions the check
+// recognises. The fixed–pinned theoretical value is the root of tan(kL) = kL,
+// 0.699; the table prints 0.7.
+func EffectiveLengths() []EffectiveLength {
+	row := func(a, b EndCondition, theoretical, design float64, letter string) EffectiveLength {
+		return EffectiveLength{[2]EndCondition{a, b}, theoretical, design, fmt.Sprintf(effectiveLengthSource, letter)}
+	}
+	return []EffectiveLength{
+		row(Fixed, Fixed, 0.5, 0.65, "a"),
+		row(Fixed, Pinned, 0.699, 0.8, "b"),
+		row(Fixed, Guided, 1.0, 1.2, "c"),
+		row(Fixed, Free, 2.0, 2.1, "d"),
+		row(Pinned, Pinned, 1.0, 1.0, "e"),
+		row(Pinned, Guided, 2.0, 2.0, "f"),
+	}
+}
+
+// LookUpEffectiveLength finds the factor for two end conditions in either order.
+func LookUpEffectiveLength(a, b EndCondition) (EffectiveLength, bool) {
+	for _, k := range EffectiveLengths() {
+		if (k.Ends[0] == a && k.Ends[1] == b) || (k.Ends[0] == b && k.Ends[1] == a) {
+			return k, true
+		}
+	}
+	return EffectiveLength{}, false
+}
+
+// EulerLoad is the elastic critical load π²EI/(KL)² of a prismatic column, N.
+func EulerLoad(flexuralRigidity, factor, length float64) float64 {
+	kl := factor * length
+	return math.Pi * math.Pi * flexuralRigidity / (kl * kl)
+}
+
+// endConditionAt combines the supports at x into one end condition.
+func endConditionAt(m *fem.Model, x float64) EndCondition {
+	tol := 1e-9 * m.Length()
+	deflection, rotation, spring := false, false, false
+	for _, s := range m.Supports {
+		if math.Abs(s.X-x) > tol {
+			continue
+		}
+		deflection = deflection || s.Kind.Restrains(fem.Transverse)
+		rotation = rotation || s.Kind.Restrains(fem.Rotation)
+		spring = spring || (s.Kind == fem.Spring && (s.Stiffness[fem.Transverse] > 0 || s.Stiffness[fem.Rotation] > 0))
+	}
+	switch {
+	case deflection && rotation:
+		return Fixed
+	case spring:
+		return Elastic
+	case deflection:
+		return Pinned
+	case rotation:
+		return Guided
+	}
+	return Free
+}
+
+// column is a stretch to check for buckling with its factor.
+type column struct {
+	a, b   float64
+	factor EffectiveLength
+	known  bool
+	note   string // how the factor was found
+}
+
+// columns splits the member into the stretches to check. Without supports
+// inside the member, the whole member is one column with its end
+// conditions. With supports inside, each span between supports is taken as
+// pinned–pinned (K = 1), conservative because continuity and end fixity only
+// shorten the buckling length; overhangs are not recognised.
+func columns(m *fem.Model) []column {
+	L := m.Length()
+	tol := 1e-9 * L
+	inside := false
+	for _, s := range m.Supports {
+		holds := s.Kind.Restrains(fem.Transverse) || s.Kind.Restrains(fem.Rotation) || s.Kind == fem.Spring
+		inside = inside || (holds && s.X > tol && s.X < L-tol)
+	}
+	if !inside {
+		a, b := endConditionAt(m, 0), endConditionAt(m, L)
+		k, ok := LookUpEffectiveLength(a, b)
+		return []column{{a: 0, b: L, factor: k, known: ok, note: fmt.Sprintf("ends %s and %s", a, b)}}
+	}
+	pinned, _ := LookUpEffectiveLength(Pinned, Pinned)
+	var out []column
+	for _, st := range stretches(m) {
+		c := column{a: st.a, b: st.b, factor: pinned, known: !st.overhangs,
+			note: "a span between supports, taken as pinned at both ends (conservative: continuity over the supports only helps)"}
+		if st.overhangs {
+			c.note = "an overhang beyond a support, whose rotation is not held: not a standard case"
+		}
+		out = append(out, c)
+	}
+	return out
+}
+
+// bucklingChecks compares the largest compression in each column with its
+// Euler load.
+func bucklingChecks(p probe, o Options) []Result {
+	var out []Result
+	for _, c := range columns(p.model) {
+		compression, where := 0.0, c.a
+		for _, pt := range p.points(c.a, c.b) {
+			for _, src := range p.sources {
+				if n := -src.At(pt.x, pt.side).AxialForce; n > compression {
+					compression, where = n, pt.x
+				}
+			}
+		}
+		if compression <= 0 {
+			continue
+		}
+		span := fmt.Sprintf("%s to %s", o.Units.Format(units.Position, c.a), o.Units.Format(units.Position, c.b))
+		r := Result{Name: "Buckling, " + span, Span: [2]float64{c.a, c.b}, X: where, Value: compression}
+		force := o.Units.Format(units.Force, compression)
+		if !c.known {
+			r.Status = Info
+			r.Message = fmt.Sprintf("This part carries up to %s of compression, but its buckling length is not a standard case (%s), so Euler buckling is not checked here: work out the effective length by hand.", force, c.note)
+			out = append(out, r)
+			continue
+		}
+		rigidity, stepped := smallestRigidity(p.model, c.a, c.b)
+		length := c.b - c.a
+		r.Limit = EulerLoad(rigidity, c.factor.Design, length)
+		theoretical := EulerLoad(rigidity, c.factor.Theoretical, length)
+		utilisation := compression / r.Limit
+		r.Status = Pass
+		if utilisation > 1 {
+			r.Status = Fail
+		}
+		r.Message = fmt.Sprintf("Utilisation %.2f: the largest compression %s at x = %s against the Euler load π²EI/(KL)² = %s, with K = %.3g (recommended design value; theoretical K = %.3g gives %s) for %s; source: %s. ",
+			utilisation, force, o.Units.Format(units.Position, where), o.Units.Format(units.Force, r.Limit),
+			c.factor.Design, c.factor.Theoretical, o.Units.Format(units.Force, theoretical), c.note, c.factor.Source)
+		if stepped {
+			r.Message += "The section changes along this part: the smallest EI is used, which is conservative. "
+		}
+		r.Message += "The Euler load is an upper bound for a perfectly straight elastic column bent in the member's plane; real columns fail below it (initial crookedness, yielding), which design codes allow for with column curves. Buckling out of the plane, about the weak axis, or lateral-torsional buckling is not checked."
+		out = append(out, r)
+	}
+	return out
+}
+
+// smallestRigidity returns the smallest EI of the segments overlapping
+// [a, b] and whether it varies there.
+func smallestRigidity(m *fem.Model, a, b float64) (float64, bool) {
+	smallest, largest := math.Inf(1), 0.0
+	for _, s := range m.Segments {
+		if s.End <= a || s.Start >= b {
+			continue
+		}
+		ei := s.Material.Elastic * s.Section.SecondMoment
+		smallest, largest = math.Min(smallest, ei), math.Max(largest, ei)
+	}
+	return smallest, largest > smallest
+}

@@ -1,0 +1,245 @@
+package check
+
+import (
+	"math"
+	"strings"
+	"testing"
+
+	"stave/fem"
+)
+
+// beam builds a one-segment member of a 100 × 200 mm rectangle in a steel
+// with E = 200 GPa: A = 0.02 m², I = b·h³/12 = 6.667e-5 m⁴, c = 0.1 m.
+func beam(length float64, supports []fem.Support, allowable float64) fem.Model {
+	return fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: length,
+			Section:  fem.Section{Area: 0.02, SecondMoment: 0.1 * 0.008 / 12, FibreDistance: 0.1},
+			Material: fem.Material{Name: "steel", Elastic: 200e9, Density: 7850, ThermalExpansion: 12e-6, Allowable: allowable}}},
+		Supports: supports,
+		Mesh:     fem.MeshSettings{Elements: 8},
+	}
+}
+
+func uniform(q, a, b float64) fem.DistributedLoad {
+	return fem.DistributedLoad{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: a, Intensity: q}, {X: b, Intensity: q}}}
+}
+
+func solveBoth(t *testing.T, m *fem.Model) (*fem.Solution, *fem.Exact) {
+	t.Helper()
+	s, err := fem.Solve(m)
+	if err != nil {
+		t.Fatalf("solve: %v", err)
+	}
+	e, err := fem.SolveExact(m)
+	if err != nil {
+		t.Fatalf("exact: %v", err)
+	}
+	return s, e
+}
+
+func find(t *testing.T, results []Result, prefix string) Result {
+	t.Helper()
+	for _, r := range results {
+		if strings.HasPrefix(r.Name, prefix) {
+			return r
+		}
+	}
+	t.Fatalf("no result named %q in %v", prefix, names(results))
+	return Result{}
+}
+
+func names(results []Result) []string {
+	var out []string
+	for _, r := range results {
+		out = append(out, r.Name)
+	}
+	return out
+}
+
+func near(got, want, relative float64) bool { return math.Abs(got-want) <= relative*math.Abs(want) }
+
+// Simply supported, 4 m, P = −20 kN at midspan: M = PL/4 = 20 kN·m and
+// δ = PL³/(48EI) = 2.0 mm (Roark's Table 8.1 case 1e, from memory);
+// S = bh²/6 = 6.667e-4 m³ so σ = 30 MPa. With 200 MPa allowable and a safety
+// factor of 1.5 the limit is 133.3 MPa and the utilisation 0.225.
+func TestHandComputedUtilisation(t *testing.T) {
+	m := beam(4, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}}, 200e6)
+	m.PointLoads = []fem.PointLoad{{X: 2, Transverse: -20e3}}
+	s, e := solveBoth(t, &m)
+	results := Run(&m, s, e, Options{SafetyFactor: 1.5, SpanRatio: 360})
+
+	stress := find(t, results, "Stress, segment 1")
+	if !near(stress.Value, 30e6, 1e-9) || !near(stress.Limit, 200e6/1.5, 1e-12) || !near(stress.X, 2, 1e-9) || stress.Status != Pass {
+		t.Errorf("stress: value %g at x = %g, limit %g, status %v; want 30 MPa at 2 m, 133.3 MPa, pass", stress.Value, stress.X, stress.Limit, stress.Status)
+	}
+	if !strings.Contains(stress.Message, "Utilisation 0.23") {
+		t.Errorf("stress message %q should state utilisation 0.225", stress.Message)
+	}
+
+	deflection := find(t, results, "Deflection, span")
+	if !near(deflection.Value, 2.0e-3, 1e-9) || !near(deflection.Limit, 4.0/360, 1e-12) || deflection.Status != Pass {
+		t.Errorf("deflection: %g (limit %g) %v, want 2.0 mm against 11.1 mm, pass", deflection.Value, deflection.Limit, deflection.Status)
+	}
+	// A 1.6 mm limit (span/2500) must fail.
+	strict := find(t, Run(&m, s, e, Options{SpanRatio: 2500}), "Deflection, span")
+	if strict.Status != Fail {
+		t.Errorf("span/2500 = 1.6 mm against 2.0 mm: status %v, want fail", strict.Status)
+	}
+	// Overstressed when the allowable drops below 30 MPa.
+	m2 := m
+	m2.Segments = append([]fem.Segment(nil), m.Segments...)
+	m2.Segments[0].Material.Allowable = 25e6
+	s2, e2 := solveBoth(t, &m2)
+	if r := find(t, Run(&m2, s2, e2, Options{}), "Stress"); r.Status != Fail || !near(r.Value/r.Limit, 1.2, 1e-9) {
+		t.Errorf("30 MPa against 25 MPa: status %v, utilisation %g, want fail and 1.2", r.Status, r.Value/r.Limit)
+	}
+
+	for _, prefix := range []string{"Equilibrium, axial", "Equilibrium, transverse", "Equilibrium, moments"} {
+		if r := find(t, results, prefix); r.Status != Pass || !near(r.Value, r.Limit, 1e-9) && math.Abs(r.Value-r.Limit) > 1e-6 {
+			t.Errorf("%s: applied %g vs reactions %g, status %v", prefix, r.Value, -r.Limit, r.Status)
+		}
+	}
+	if r := find(t, results, "Equilibrium, transverse"); !near(r.Value, -20e3, 1e-12) {
+		t.Errorf("applied transverse load %g, want −20 kN", r.Value)
+	}
+	if r := find(t, results, "Handbook: deflection at midspan"); r.Status != Pass {
+		t.Errorf("handbook: %v: %s", r.Status, r.Message)
+	}
+	for _, r := range results {
+		if r.Caution != Caution {
+			t.Errorf("%s carries no caution", r.Name)
+		}
+	}
+}
+
+// A cantilever: the deflection limit uses its own length over the
+// cantilever ratio, and says so.
+func TestCantileverDeflectionLimit(t *testing.T) {
+	m := beam(2, []fem.Support{{X: 0, Kind: fem.Fixed}}, 0)
+	m.PointLoads = []fem.PointLoad{{X: 2, Transverse: -5e3}}
+	s, e := solveBoth(t, &m)
+	r := find(t, Run(&m, s, e, Options{}), "Deflection, cantilever")
+	// δ = PL³/(3EI) = 5000·8/(3·1.3333e7) = 1.0 mm (Gere & Goodno, Table G-1, from memory).
+	if !near(r.Value, 1e-3, 1e-9) || !near(r.Limit, 2.0/180, 1e-12) || !near(r.X, 2, 1e-12) {
+		t.Errorf("cantilever: %g at %g against %g; want 1 mm at 2 m against L/180", r.Value, r.X, r.Limit)
+	}
+	if !strings.Contains(r.Message, "uses its own length") {
+		t.Errorf("cantilever message should explain the length used: %q", r.Message)
+	}
+	if r := find(t, Run(&m, s, e, Options{}), "Stress"); r.Status != Info {
+		t.Errorf("no allowable given: status %v, want info", r.Status)
+	}
+}
+
+// Theoretical effective length factors are the roots of the buckling
+// equations of an elastic column (Timoshenko & Gere, Theory of Elastic
+// Stability, ch. 2, from memory): with k² = P/EI, fixed–pinned has
+// tan(kL) = kL, fixed–fixed sin(kL/2) = 0, fixed–free and pinned–guided
+// cos(kL) = 0, pinned–pinned and fixed–guided sin(kL) = 0. K = π/(kL).
+func TestTheoreticalEffectiveLengths(t *testing.T) {
+	cases := []struct {
+		a, b           EndCondition
+		characteristic func(kl float64) float64
+		design         float64 // AISC Table C-A-7.1 recommended value, from memory
+	}{
+		{Fixed, Pinned, func(kl float64) float64 { return math.Tan(kl) - kl }, 0.8},
+		{Fixed, Fixed, func(kl float64) float64 { return math.Sin(kl / 2) }, 0.65},
+		{Fixed, Free, func(kl float64) float64 { return math.Cos(kl) }, 2.1},
+		{Pinned, Guided, func(kl float64) float64 { return math.Cos(kl) }, 2.0},
+		{Pinned, Pinned, func(kl float64) float64 { return math.Sin(kl) }, 1.0},
+		{Guided, Fixed, func(kl float64) float64 { return math.Sin(kl) }, 1.2},
+	}
+	for _, c := range cases {
+		k, ok := LookUpEffectiveLength(c.a, c.b)
+		if !ok {
+			t.Errorf("%v–%v not recognised", c.a, c.b)
+			continue
+		}
+		kl := math.Pi / k.Theoretical
+		// The factor is rounded to three figures: the residual of the
+		// characteristic equation must vanish to that accuracy.
+		if r := c.characteristic(kl); math.Abs(r) > 5e-3*math.Max(1, kl) {
+			t.Errorf("%v–%v: K = %g gives kL = %g, residual %g", c.a, c.b, k.Theoretical, kl, r)
+		}
+		if k.Design != c.design || k.Design < k.Theoretical {
+			t.Errorf("%v–%v: design K = %g, want %g (not below theoretical %g)", c.a, c.b, k.Design, c.design, k.Theoretical)
+		}
+		if !strings.Contains(k.Source, "C-A-7.1") {
+			t.Errorf("%v–%v: source %q", c.a, c.b, k.Source)
+		}
+	}
+	for _, pair := range [][2]EndCondition{{Free, Free}, {Pinned, Free}, {Elastic, Fixed}} {
+		if _, ok := LookUpEffectiveLength(pair[0], pair[1]); ok {
+			t.Errorf("%v–%v recognised, but it is no standard case", pair[0], pair[1])
+		}
+	}
+}
+
+// Euler load π²EI/(KL)² of a column under an end load, through Run.
+func TestEulerBuckling(t *testing.T) {
+	const L, P = 3.0, 5e6
+	ei := 200e9 * 0.1 * 0.008 / 12
+	cases := []struct {
+		name        string
+		supports    []fem.Support
+		at          float64 // where the load −P acts
+		compression float64 // largest compression, N
+		factor      float64 // recommended design K, AISC Table C-A-7.1 (from memory)
+	}{
+		{"fixed–free", []fem.Support{{X: 0, Kind: fem.Fixed}}, L, P, 2.1},
+		{"pinned–pinned", []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L, Kind: fem.Roller}}, L, P, 1.0},
+		{"fixed–pinned", []fem.Support{{X: 0, Kind: fem.Fixed}, {X: L, Kind: fem.Roller}}, L, P, 0.8},
+		// Where both ends are held axially a load at mid-height is shared, half in compression.
+		{"fixed–guided", []fem.Support{{X: 0, Kind: fem.Fixed}, {X: L, Kind: fem.Guided}}, L / 2, P / 2, 1.2},
+		{"fixed–fixed", []fem.Support{{X: 0, Kind: fem.Fixed}, {X: L, Kind: fem.Fixed}}, L / 2, P / 2, 0.65},
+	}
+	for _, c := range cases {
+		m := beam(L, c.supports, 0)
+		m.PointLoads = []fem.PointLoad{{X: c.at, Axial: -P}}
+		s, e := solveBoth(t, &m)
+		r := find(t, Run(&m, s, e, Options{}), "Buckling")
+		want := math.Pi * math.Pi * ei / (c.factor * L * c.factor * L)
+		if !near(r.Limit, want, 1e-12) || !near(r.Value, c.compression, 1e-9) {
+			t.Errorf("%s: Pcr %g, N %g; want %g and %g", c.name, r.Limit, r.Value, want, c.compression)
+		}
+		status := Pass
+		if c.compression > want {
+			status = Fail
+		}
+		if r.Status != status {
+			t.Errorf("%s: N/Pcr = %.3f, status %v, want %v", c.name, c.compression/want, r.Status, status)
+		}
+		t.Logf("%s: Pcr = %.4g N, utilisation %.3f, %v", c.name, r.Limit, c.compression/r.Limit, r.Status)
+	}
+}
+
+// A member on three supports: each span is taken as pinned–pinned, and a
+// thinner segment governs with its own EI.
+func TestBucklingOfSpansAndSteps(t *testing.T) {
+	m := beam(4, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 1, Kind: fem.Roller}, {X: 4, Kind: fem.Roller}}, 0)
+	thin := m.Segments[0]
+	thin.Start, thin.End = 2, 4
+	thin.Section.SecondMoment /= 2
+	m.Segments[0].End = 2
+	m.Segments = append(m.Segments, thin)
+	m.PointLoads = []fem.PointLoad{{X: 4, Axial: -50e3}}
+	// The pinned support at 0 carries the axial load, so both spans are in compression.
+	s, e := solveBoth(t, &m)
+	results := Run(&m, s, e, Options{})
+	long := find(t, results, "Buckling, 1.000 m to 4.000 m")
+	want := math.Pi * math.Pi * 200e9 * thin.Section.SecondMoment / 9
+	if !near(long.Limit, want, 1e-12) || !strings.Contains(long.Message, "smallest EI") {
+		t.Errorf("stepped span: Pcr %g, want π²·EI_min/3² = %g; message %q", long.Limit, want, long.Message)
+	}
+	short := find(t, results, "Buckling, 0 m to 1.000 m")
+	if want := math.Pi * math.Pi * 200e9 * m.Segments[0].Section.SecondMoment; !near(short.Limit, want, 1e-12) {
+		t.Errorf("short span: Pcr %g, want %g", short.Limit, want)
+	}
+}
+
+func TestNothingToCheck(t *testing.T) {
+	r := Run(nil, nil, nil, Options{})
+	if len(r) != 1 || r[0].Status != Info || r[0].Caution != Caution {
+		t.Errorf("no solution: %+v", r)
+	}
+}

@@ -1,0 +1,167 @@
+package check
+
+import (
+	"fmt"
+	"math"
+	"slices"
+
+	"stave/fem"
+	"stave/fem/units"
+)
+
+// stressChecks compares, per segment, the largest combined stress with the
+// allowable stress over the safety factor.
+func stressChecks(p probe, o Options) []Result {
+	var out []Result
+	for i, seg := range p.model.Segments {
+		r := Result{Name: fmt.Sprintf("Stress, segment %d", i+1), Span: [2]float64{seg.Start, seg.End}}
+		worst, where := 0.0, seg.Start
+		for _, pt := range p.points(seg.Start, seg.End) {
+			if pt.segment != i {
+				continue
+			}
+			if v := p.largest(pt, func(_ fem.Field, f fem.Fields) float64 { return f.CombinedStress }); math.Abs(v) > math.Abs(worst) {
+				worst, where = v, pt.x
+			}
+		}
+		r.X, r.Value = where, math.Abs(worst)
+		stress := o.Units.Format(units.Stress, r.Value)
+		at := o.Units.Format(units.Position, where)
+		allowable := seg.Material.Allowable
+		if !(allowable > 0) {
+			r.Status = Info
+			r.Message = fmt.Sprintf("The largest combined stress is %s at x = %s. No allowable stress is given for this segment's material, so it is not checked: enter one to get a utilisation.", stress, at)
+			out = append(out, r)
+			continue
+		}
+		r.Limit = allowable / o.SafetyFactor
+		utilisation := r.Value / r.Limit
+		r.Status = Pass
+		if utilisation > 1 {
+			r.Status = Fail
+		}
+		r.Message = fmt.Sprintf("Utilisation %.2f: the largest combined stress (axial plus bending, worst fibre) is %s at x = %s, from %s; the limit is the allowable %s divided by the safety factor %.3g = %s. ",
+			utilisation, stress, at, p.fromWhat(), o.Units.Format(units.Stress, allowable), o.SafetyFactor, o.Units.Format(units.Stress, r.Limit))
+		if r.Status == Fail {
+			r.Message += "Above 1 the member is overstressed: a larger section, a stronger material, or less load is needed. "
+		}
+		r.Message += "This is elastic stress only: local buckling, lateral-torsional buckling, shear, connections and fatigue are not checked."
+		out = append(out, r)
+	}
+	return out
+}
+
+// DeflectionLimit is a span/n limit in common use.
+type DeflectionLimit struct {
+	Use   string
+	Ratio float64 // n in span/n
+}
+
+// DeflectionLimits lists typical deflection limits. They are common
+// practice; similar values appear for example in the International Building
+// Code, Table 1604.3 (from memory). The governing code and the client's
+// brief set the real limits.
+func DeflectionLimits() []DeflectionLimit {
+	return []DeflectionLimit{
+		{"floor members, live load", 360},
+		{"floor members, total load", 240},
+		{"roof members supporting a plaster ceiling, live load", 360},
+		{"roof members, other ceilings", 240},
+		{"roof members, no ceiling", 180},
+		{"cantilevers (length, not twice the length)", 180},
+	}
+}
+
+// stretch is a part of the member between supports (or an overhang).
+type stretch struct {
+	a, b      float64
+	support   [2]bool // whether each end sits on a transverse support
+	overhangs bool    // one end is free
+}
+
+// stretches splits [0, L] at the rigid transverse supports.
+func stretches(m *fem.Model) []stretch {
+	var xs []float64
+	for _, s := range m.Supports {
+		if s.Kind.Restrains(fem.Transverse) {
+			xs = append(xs, s.X)
+		}
+	}
+	slices.Sort(xs)
+	xs = slices.Compact(xs)
+	L := m.Length()
+	if len(xs) == 0 {
+		return nil
+	}
+	var out []stretch
+	tol := 1e-9 * L
+	if xs[0] > tol {
+		out = append(out, stretch{a: 0, b: xs[0], support: [2]bool{false, true}, overhangs: true})
+	}
+	for i := 1; i < len(xs); i++ {
+		out = append(out, stretch{a: xs[i-1], b: xs[i], support: [2]bool{true, true}})
+	}
+	if last := xs[len(xs)-1]; last < L-tol {
+		out = append(out, stretch{a: last, b: L, support: [2]bool{true, false}, overhangs: true})
+	}
+	return out
+}
+
+// deflectionChecks measures, per stretch, the deflection relative to the
+// supports (so settlements do not count) against span/n.
+func deflectionChecks(p probe, o Options) []Result {
+	parts := stretches(p.model)
+	if len(parts) == 0 {
+		return []Result{{Name: "Deflection", Status: Info,
+			Message: "No support restrains deflection rigidly, so there is no span to measure deflection against; deflection is not checked."}}
+	}
+	var out []Result
+	for _, st := range parts {
+		r := Result{Span: [2]float64{st.a, st.b}}
+		length := st.b - st.a
+		n := o.SpanRatio
+		kind := "span"
+		if st.overhangs {
+			n = o.CantileverRatio
+			kind = "cantilever"
+		}
+		r.Name = fmt.Sprintf("Deflection, %s %s to %s", kind, o.Units.Format(units.Position, st.a), o.Units.Format(units.Position, st.b))
+		r.Limit = length / n
+		for _, pt := range p.points(st.a, st.b) {
+			v := p.largest(pt, func(src fem.Field, f fem.Fields) float64 { return f.Deflection - chord(src, st, pt.x) })
+			if math.Abs(v) > r.Value {
+				r.Value, r.X = math.Abs(v), pt.x
+			}
+		}
+		r.Status = Pass
+		if r.Value > r.Limit {
+			r.Status = Fail
+		}
+		r.Message = fmt.Sprintf("The largest deflection in this %s is %s at x = %s, measured from the line through the supports (settlement not counted), from %s. The limit %s/%g = %s is a user choice (common practice: span/360 for floors, /240 for roofs, length/180 for cantilevers).",
+			kind, o.Units.Format(units.Deflection, r.Value), o.Units.Format(units.Position, r.X), p.fromWhat(),
+			kind, n, o.Units.Format(units.Deflection, r.Limit))
+		if st.overhangs {
+			r.Message += " For a cantilever or an overhang the limit uses its own length, and the deflection includes the tilt of the beam over the support."
+		}
+		if r.Status == Fail {
+			r.Message += " Too much deflection cracks finishes and makes floors feel bouncy: a deeper section or a shorter span helps most."
+		}
+		out = append(out, r)
+	}
+	return out
+}
+
+// chord is the deflection of the supports at x in solution src: the
+// straight line through both supports of a span, or the support's own
+// deflection for an overhang.
+func chord(src fem.Field, st stretch, x float64) float64 {
+	wa := src.At(st.a, fem.Right).Deflection
+	wb := src.At(st.b, fem.Left).Deflection
+	switch {
+	case !st.support[0]:
+		return wb
+	case !st.support[1]:
+		return wa
+	}
+	return wa + (wb-wa)*(x-st.a)/(st.b-st.a)
+}
