@@ -181,9 +181,10 @@ func (b *builder) label(s string, size float32, c color.NRGBA, bold, force bool,
 	for i, cand := range cands {
 		left := max(2, min(b.v.Width-w-2, cand.x-cand.ax*w))
 		r := rect{left, cand.y - cand.ay*h, left + w, cand.y - cand.ay*h + h}
+		padded := rect{r.x0 - 3, r.y0 - 1, r.x1 + 3, r.y1 + 1}
 		free := true
 		for _, o := range b.occupied {
-			if r.overlaps(o) {
+			if padded.overlaps(o) {
 				free = false
 				break
 			}

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"image/color"
 	"math"
+	"strings"
 
 	"stave/fem"
 	"stave/fem/units"
@@ -27,7 +28,7 @@ var diagramsList = []diagram{
 		rgb(0x15, 0x65, 0xc0), false, "V = dM/dx, + drawn above", func(l Layers) bool { return l.ShearForce }},
 	{quantity{"Bending moment", "M", units.Moment, func(f fem.Fields) float64 { return f.BendingMoment }},
 		rgb(0x7b, 0x1f, 0xa2), true, "sagging + drawn below (tension side)", func(l Layers) bool { return l.BendingMoment }},
-	{quantity{"Combined stress", "σ", units.Stress, func(f fem.Fields) float64 { return f.CombinedStress }},
+	{quantity{"Combined stress", "", units.Stress, func(f fem.Fields) float64 { return f.CombinedStress }},
 		rgb(0xa8, 0x4a, 0x00), false, "tension + drawn above", func(l Layers) bool { return l.Stress }},
 }
 
@@ -64,7 +65,7 @@ func (b *builder) diagrams(lay layoutBands) {
 // between them, extremes and the largest gap labelled.
 func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme) {
 	d := st.diagram
-	title := fmt.Sprintf("%s %s [%s]", d.name, d.symbol, b.u.Unit(d.unit).Symbol)
+	title := strings.TrimSpace(d.name+" "+d.symbol) + " [" + b.u.Unit(d.unit).Symbol + "]"
 	b.text(title, 8, st.top+5, titleSize, 0, 0, d.colour, true)
 	tr := rect{0, st.top, 16 + textWidth(title, titleSize, true), st.top + 22}
 	b.occupy(tr)
@@ -84,7 +85,8 @@ func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme) {
 			lo, hi = min(lo, c.lo.value), max(hi, c.hi.value)
 		}
 	}
-	innerTop, innerBottom := st.top+30, st.bottom-20
+	// Room above and below the curve for the labels of its extremes.
+	innerTop, innerBottom := st.top+40, st.bottom-20
 	if d.unit == units.Stress {
 		innerBottom -= 12 // room for the colour band
 	}

@@ -460,10 +460,9 @@ func (b *builder) reactions(y float32) {
 		}
 		ly := y + supportHeight + 6
 		for _, p := range parts {
-			if rr, ok := b.label(p, smallSize, supportColour, false, false,
-				labelSpot{x, ly, 0.5, 0}, labelSpot{x + 24, ly, 0, 0}, labelSpot{x - 24, ly, 1, 0}); ok {
-				ly = rr.y1
-			}
+			rr, _ := b.label(p, smallSize, supportColour, false, true,
+				labelSpot{x, ly, 0.5, 0}, labelSpot{x + 24, ly, 0, 0}, labelSpot{x - 24, ly, 1, 0})
+			ly = rr.y1 + 2
 		}
 	}
 }
@@ -570,7 +569,7 @@ func (b *builder) deformed(lay layoutBands) {
 		ay = 0
 	}
 	s := fmt.Sprintf("w %s at %s", b.format(units.Deflection, peak.value), b.format(units.Position, peak.x))
-	b.label(s, smallSize, deformedColour, false, false,
+	b.label(s, smallSize, deformedColour, false, true,
 		labelSpot{px, py + 4 - 8*ay, 0.5, ay}, labelSpot{px + 8, py + 4 - 8*ay, 0, ay}, labelSpot{px - 8, py + 4 - 8*ay, 1, ay})
 }
 

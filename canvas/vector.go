@@ -5,6 +5,9 @@ import (
 	"image/color"
 	"io"
 	"math"
+	"strings"
+
+	"golang.org/x/text/encoding/charmap"
 
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/vgimg"
@@ -12,19 +15,22 @@ import (
 	"gonum.org/v1/plot/vg/vgsvg"
 )
 
+// paintStyle says how drawScene treats text and colour.
+type paintStyle int
+
+const (
+	allText paintStyle = iota
+	noText             // the screen draws text natively
+	// forPDF works around three vgpdf limits: it cannot select its own bold
+	// face (bold is overprinted), it reads colours as unpremultiplied, and it
+	// writes text in code page 1252.
+	forPDF
+)
+
 // drawScene draws s onto c with its top-left corner at origin (in c's
 // y-up coordinates, the top edge is origin.Y) and every length times k.
 // PNG, SVG, PDF and the calculation sheet all go through here, so they
 // cannot drift apart.
-// paintStyle says how drawScene treats text.
-type paintStyle int
-
-const (
-	allText  paintStyle = iota
-	noText              // the screen draws text natively
-	fauxBold            // vgpdf cannot select its own bold face: overprint the regular one
-)
-
 func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, style paintStyle) {
 	pt := func(p Point) vg.Point {
 		return vg.Point{X: origin.X + vg.Length(float64(p.X)*k), Y: origin.Y - vg.Length(float64(p.Y)*k)}
@@ -43,11 +49,18 @@ func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, style paintSty
 		}
 		return p
 	}
+	setColour := func(col color.NRGBA) {
+		if style == forPDF {
+			c.SetColor(straightAlpha(col))
+			return
+		}
+		c.SetColor(col)
+	}
 	stroke := func(it Item, p vg.Path) {
 		if it.Stroke.A == 0 || it.StrokeWidth <= 0 {
 			return
 		}
-		c.SetColor(it.Stroke)
+		setColour(it.Stroke)
 		c.SetLineWidth(vg.Length(float64(it.StrokeWidth) * k))
 		if it.Dash {
 			c.SetLineDash([]vg.Length{vg.Length(5 * k), vg.Length(3 * k)}, 0)
@@ -60,7 +73,7 @@ func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, style paintSty
 		if col.A == 0 {
 			return
 		}
-		c.SetColor(col)
+		setColour(col)
 		c.Fill(p)
 	}
 	for _, it := range s.Items {
@@ -88,14 +101,18 @@ func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, style paintSty
 			if style == noText {
 				continue
 			}
-			overprint := it.Bold && style == fauxBold
+			overprint := it.Bold && style == forPDF
 			face := textFace(it.Size*float32(k), it.Bold && !overprint)
 			top := pt(it.At)
 			baseline := top.Y - face.Extents().Ascent - vg.Length(0.04*float64(it.Size)*k)
-			c.SetColor(it.Stroke)
-			c.FillString(face, vg.Point{X: top.X, Y: baseline}, it.Text)
+			setColour(it.Stroke)
+			txt := it.Text
+			if style == forPDF {
+				txt = codePage1252(txt)
+			}
+			c.FillString(face, vg.Point{X: top.X, Y: baseline}, txt)
 			if overprint {
-				c.FillString(face, vg.Point{X: top.X + vg.Length(0.045*float64(it.Size)*k), Y: baseline}, it.Text)
+				c.FillString(face, vg.Point{X: top.X + vg.Length(0.045*float64(it.Size)*k), Y: baseline}, txt)
 			}
 		}
 	}
@@ -145,7 +162,7 @@ func WritePDF(w io.Writer, s *Scene) error {
 		return err
 	}
 	c := vgpdf.New(vg.Length(s.Width), vg.Length(s.Height))
-	paint(c, s, 1, fauxBold)
+	paint(c, s, 1, forPDF)
 	_, err := c.WriteTo(w)
 	return err
 }
@@ -158,4 +175,34 @@ func checkSize(s *Scene, scale float64) error {
 		return fmt.Errorf("canvas: cannot write a drawing of %v × %v pixels at scale %v: each side must come to between 1 and 20000 pixels", s.Width, s.Height, scale)
 	}
 	return nil
+}
+
+// straightAlpha is a colour whose RGBA method returns unpremultiplied
+// channels, which is what vgpdf expects: a premultiplied translucent colour
+// would come out dark.
+type straightAlpha color.NRGBA
+
+func (c straightAlpha) RGBA() (r, g, b, a uint32) {
+	return uint32(c.R) * 0x101, uint32(c.G) * 0x101, uint32(c.B) * 0x101, uint32(c.A) * 0x101
+}
+
+// superscripts outside code page 1252, written as powers instead.
+var superscripts = strings.NewReplacer("⁰", "^0", "⁴", "^4", "⁵", "^5", "⁶", "^6", "⁷", "^7", "⁸", "^8", "⁹", "^9", "⁻", "^-")
+
+// codePage1252 re-encodes s for vgpdf's text, replacing what the code page lacks.
+func codePage1252(s string) string {
+	out, err := charmap.Windows1252.NewEncoder().String(superscripts.Replace(s))
+	if err == nil {
+		return out
+	}
+	var b strings.Builder
+	enc := charmap.Windows1252.NewEncoder()
+	for _, r := range superscripts.Replace(s) {
+		if e, err := enc.String(string(r)); err == nil {
+			b.WriteString(e)
+		} else {
+			b.WriteByte('?')
+		}
+	}
+	return b.String()
 }
