@@ -85,10 +85,12 @@ func (e *PivotError) Error() string {
 //	f.SolveTo(x, b)
 //
 // Factorize costs O(N·K²) and SolveTo O(N·K); neither allocates once the
-// receiver has been used for a matrix of the same size.
+// receiver has been used for a matrix of the same size. Half-bandwidths 1
+// (linear bar) and 3 (beam) have unrolled kernels.
 type BandLDL struct {
 	n, k int
-	// f holds U above the diagonal and D on it, in SymBand layout.
+	// f holds U above the diagonal and D⁻¹ on it, in SymBand layout, so the
+	// solves multiply instead of divide.
 	f []float64
 	// work is scratch for the condition estimate.
 	work [3][]float64
@@ -110,16 +112,40 @@ func (f *BandLDL) Factorize(a *SymBand) error {
 	}
 	f.f = f.f[:n*w]
 	copy(f.f, a.Data[:n*w])
-	d := f.f
-	for i := range n {
+	d, orig := f.f, a.Data
+	from := 0
+	var err error
+	switch k {
+	case 1:
+		from, err = factorBand1(d, orig, n)
+	case 3:
+		from, err = factorBand3(d, orig, n)
+	}
+	if err == nil {
+		err = factorRows(d, orig, n, k, from)
+	}
+	if err != nil {
+		return err
+	}
+	f.n, f.k = n, k
+	return nil
+}
+
+// pivotOK is the singularity test of one pivot against its original diagonal.
+func pivotOK(piv, diag float64) bool { return piv > pivotTolerance*math.Abs(diag) }
+
+// factorRows is the general right-looking elimination of rows from..n-1.
+func factorRows(d, orig []float64, n, k, from int) error {
+	w := k + 1
+	for i := from; i < n; i++ {
 		row := d[i*w : i*w+w]
 		piv := row[0]
-		if !(piv > pivotTolerance*math.Abs(a.Data[i*w])) {
-			return &PivotError{Row: i, Pivot: piv, Diagonal: a.Data[i*w]}
+		if !pivotOK(piv, orig[i*w]) {
+			return &PivotError{Row: i, Pivot: piv, Diagonal: orig[i*w]}
 		}
 		m := min(k, n-1-i)
 		inv := 1 / piv
-		// Right-looking update of the rows below with the unscaled row i.
+		// The rows below are updated with the unscaled row i.
 		for j := 1; j <= m; j++ {
 			t := row[j]
 			if t == 0 {
@@ -135,41 +161,121 @@ func (f *BandLDL) Factorize(a *SymBand) error {
 		for j := 1; j <= m; j++ {
 			row[j] *= inv
 		}
+		row[0] = inv
 	}
-	f.n, f.k = n, k
 	return nil
+}
+
+// factorBand1 eliminates the rows of a half-bandwidth-1 matrix that have a
+// full band below them and returns the first row left to factorRows.
+func factorBand1(d, orig []float64, n int) (int, error) {
+	i := 0
+	for ; i+1 < n; i++ {
+		r := d[2*i : 2*i+4 : 2*i+4]
+		piv := r[0]
+		if !pivotOK(piv, orig[2*i]) {
+			return i, &PivotError{Row: i, Pivot: piv, Diagonal: orig[2*i]}
+		}
+		inv := 1 / piv
+		a1 := r[1]
+		l1 := a1 * inv
+		r[2] -= l1 * a1
+		r[0], r[1] = inv, l1
+	}
+	return i, nil
+}
+
+// factorBand3 is factorBand1 for half-bandwidth 3.
+func factorBand3(d, orig []float64, n int) (int, error) {
+	i := 0
+	for ; i+3 < n; i++ {
+		r := d[4*i : 4*i+16 : 4*i+16]
+		piv := r[0]
+		if !pivotOK(piv, orig[4*i]) {
+			return i, &PivotError{Row: i, Pivot: piv, Diagonal: orig[4*i]}
+		}
+		inv := 1 / piv
+		a1, a2, a3 := r[1], r[2], r[3]
+		l1, l2, l3 := a1*inv, a2*inv, a3*inv
+		r[4] -= l1 * a1
+		r[5] -= l1 * a2
+		r[6] -= l1 * a3
+		r[8] -= l2 * a2
+		r[9] -= l2 * a3
+		r[12] -= l3 * a3
+		r[0], r[1], r[2], r[3] = inv, l1, l2, l3
+	}
+	return i, nil
 }
 
 // SolveTo solves A·x = b into dst using the factorization; dst and b may be
 // the same slice.
 func (f *BandLDL) SolveTo(dst, b []float64) error {
-	n, k, w := f.n, f.k, f.k+1
+	n, k := f.n, f.k
 	if len(dst) != n || len(b) != n {
 		return fmt.Errorf("fem: solve with vectors of length %d and %d for a factorization of order %d", len(dst), len(b), n)
 	}
 	copy(dst, b)
-	d := f.f
-	// Uᵀ·y = b, then D, by columns of U.
-	for i := range n {
-		row := d[i*w : i*w+w]
-		y := dst[i]
-		m := min(k, n-1-i)
-		x := dst[i+1 : i+1+m]
-		for j := range x {
-			x[j] -= row[j+1] * y
+	d, x := f.f, dst
+	// Rows below tail have a full band under them and take the unrolled kernels.
+	tail := 0
+	if k == 1 || k == 3 {
+		tail = max(n-k, 0)
+	}
+	// Uᵀ·y = b and z = D⁻¹·y, by columns of U.
+	switch k {
+	case 1:
+		for i := range tail {
+			r := d[2*i : 2*i+2 : 2*i+2]
+			xs := x[i : i+2 : i+2]
+			y := xs[0]
+			xs[1] -= r[1] * y
+			xs[0] = y * r[0]
 		}
-		dst[i] = y / row[0]
+	case 3:
+		for i := range tail {
+			r := d[4*i : 4*i+4 : 4*i+4]
+			xs := x[i : i+4 : i+4]
+			y := xs[0]
+			xs[1] -= r[1] * y
+			xs[2] -= r[2] * y
+			xs[3] -= r[3] * y
+			xs[0] = y * r[0]
+		}
+	}
+	w := k + 1
+	for i := tail; i < n; i++ {
+		row := d[i*w : i*w+w]
+		y := x[i]
+		rest := x[i+1 : i+1+min(k, n-1-i)]
+		for j := range rest {
+			rest[j] -= row[j+1] * y
+		}
+		x[i] = y * row[0]
 	}
 	// U·x = z, by rows of U.
-	for i := n - 1; i >= 0; i-- {
+	for i := n - 1; i >= tail; i-- {
 		row := d[i*w : i*w+w]
-		m := min(k, n-1-i)
-		s := dst[i]
-		x := dst[i+1 : i+1+m]
-		for j := range x {
-			s -= row[j+1] * x[j]
+		s := x[i]
+		rest := x[i+1 : i+1+min(k, n-1-i)]
+		for j := range rest {
+			s -= row[j+1] * rest[j]
 		}
-		dst[i] = s
+		x[i] = s
+	}
+	switch k {
+	case 1:
+		for i := tail - 1; i >= 0; i-- {
+			r := d[2*i : 2*i+2 : 2*i+2]
+			xs := x[i : i+2 : i+2]
+			xs[0] -= r[1] * xs[1]
+		}
+	case 3:
+		for i := tail - 1; i >= 0; i-- {
+			r := d[4*i : 4*i+4 : 4*i+4]
+			xs := x[i : i+4 : i+4]
+			xs[0] -= r[1]*xs[1] + r[2]*xs[2] + r[3]*xs[3]
+		}
 	}
 	return nil
 }

@@ -61,7 +61,7 @@ func TestThermalLoadVectors(t *testing.T) {
 
 // Stiffness matrices: closed forms checked against the energy of exactly
 // representable motions, which is independent of how the matrix was written:
-// ½·uᵀKu must equal ½∫EA·u'² or ½∫EI·w”² for the interpolated field.
+// ½·uᵀKu must equal ½∫EA·u'² or ½∫EI·w″² for the interpolated field.
 func TestElementStiffnessEnergy(t *testing.T) {
 	d := elementData{length: 1.3, axialRigidity: 2e9, flexuralRigidity: 5e6}
 	quadForm := func(k localMatrix, u []float64) float64 {

@@ -28,9 +28,24 @@ type Solution struct {
 	beam     []float64 // w, θ per node
 }
 
-// conditionLimit is the condition number beyond which results are flagged:
-// about 1e-4 of relative accuracy is left in float64 (common practice).
+// conditionLimit is the condition number beyond which results are flagged.
+// Relative errors up to about cond·ε (ε = 2.2e-16) are possible; measured on
+// a cantilever with a tip load, 1000 Hermite elements (cond 1e13) gave 8e-5
+// and 30,000 elements (cond 2e17) gave 95 %.
 const conditionLimit = 1e12
+
+// conditionWarning says how far results of a problem with condition number
+// cond can be trusted, or returns "" when they can.
+func conditionWarning(problem string, cond float64) string {
+	const eps = 0x1p-52
+	switch {
+	case cond*eps >= 1:
+		return fmt.Sprintf("the %s stiffness matrix is singular to working precision (estimated condition number %.2g, beyond 1/ε of float64): the results are meaningless; use far fewer elements", problem, cond)
+	case cond > conditionLimit:
+		return fmt.Sprintf("the %s stiffness matrix is ill-conditioned (estimated condition number %.2g): results are unreliable, with relative errors possibly up to %.0e; use fewer elements or avoid extreme stiffness contrasts", problem, cond, cond*eps)
+	}
+	return ""
+}
 
 // MechanismError says the supports leave a rigid-body motion free.
 type MechanismError struct {
@@ -77,8 +92,8 @@ func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
 			return nil, err
 		}
 		s.Condition = max(s.Condition, cond)
-		if cond > conditionLimit {
-			s.Warnings = append(s.Warnings, fmt.Sprintf("the %s stiffness matrix is ill-conditioned (estimated condition number %.2g): results may be unreliable; use fewer elements or avoid extreme stiffness contrasts", p.name(), cond))
+		if w := conditionWarning(p.name(), cond); w != "" {
+			s.Warnings = append(s.Warnings, w)
 		}
 		if p.motions()[0] == Axial {
 			s.bar = u

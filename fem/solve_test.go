@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"strings"
 	"testing"
 )
 
@@ -348,5 +349,24 @@ func BenchmarkSample(b *testing.B) {
 	}
 	for b.Loop() {
 		_ = s.Sample(10)
+	}
+}
+
+// Hermite beams lose accuracy like cond·ε as elements shrink (round-off growing
+// like h⁻⁴; Strang & Fix, ch. 5, from memory): the warning must appear.
+func TestConditionWarning(t *testing.T) {
+	m := withPointLoad(testModel(Support{X: 0, Kind: Fixed}), PointLoad{X: testL, Transverse: testP})
+	m.Mesh.Elements = 20
+	s := mustSolve(t, m)
+	if len(s.Warnings) != 0 || s.Condition < 1e5 || s.Condition > 1e8 {
+		t.Errorf("20 elements: condition %.3g, warnings %v; want between 1e5 and 1e8 and none", s.Condition, s.Warnings)
+	}
+	m.Mesh.Elements = 3000
+	s = mustSolve(t, m)
+	if len(s.Warnings) != 1 || !strings.Contains(s.Warnings[0], "beam stiffness matrix is ill-conditioned") {
+		t.Errorf("3000 elements: condition %.3g, warnings %v; want the ill-conditioning warning", s.Condition, s.Warnings)
+	}
+	if w := conditionWarning("beam", 1e17); !strings.Contains(w, "meaningless") {
+		t.Errorf("condition 1e17: %q", w)
 	}
 }
