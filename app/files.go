@@ -1,0 +1,468 @@
+package app
+
+import (
+	"errors"
+	"fmt"
+	"os"
+	"path/filepath"
+	"strings"
+	"time"
+
+	"fyne.io/fyne/v2"
+	fyneapp "fyne.io/fyne/v2/app"
+	"fyne.io/fyne/v2/dialog"
+	"fyne.io/fyne/v2/driver/desktop"
+	storagefilter "fyne.io/fyne/v2/storage"
+	"fyne.io/fyne/v2/widget"
+	native "github.com/sqweek/dialog"
+
+	"stave/canvas"
+	"stave/storage"
+)
+
+// autosaveEvery is how often unsaved work is copied to the recovery folder.
+const autosaveEvery = 30 * time.Second
+
+// maxRecent is the length of the File ▸ Open recent list.
+const maxRecent = 8
+
+// Run opens the window on the project file at path (the built-in demo when
+// path is "") and runs the application until the window closes.
+func Run(path string) error {
+	a := fyneapp.NewWithID("org.stave.member")
+	p, err := startProject(path)
+	if err != nil {
+		return err
+	}
+	if path == "" {
+		p.problem = ""
+	}
+	w := NewWindow(a, p.project, path)
+	w.win.SetMaster()
+	w.Show()
+	if p.problem != "" {
+		w.setStatus("%s", p.problem)
+	}
+	w.offerRecovery()
+	a.Run()
+	return nil
+}
+
+// opened is the project a run starts with, and what went wrong finding it.
+type opened struct {
+	project *storage.Project
+	problem string
+}
+
+// startProject reads path, or with no path the demo: testdata/demo.json if
+// it is there, else an empty sketch.
+func startProject(path string) (opened, error) {
+	if path != "" {
+		p, err := storage.Load(path)
+		if err != nil {
+			return opened{}, fmt.Errorf("cannot open %s: %w", path, err)
+		}
+		return opened{project: p}, nil
+	}
+	p, err := storage.Load(filepath.Join("testdata", "demo.json"))
+	if err != nil {
+		empty := storage.Project{View: storage.DefaultView()}
+		return opened{project: &empty, problem: "no demo found (" + err.Error() + "); starting with an empty sketch"}, nil
+	}
+	return opened{project: p}, nil
+}
+
+// defaultRecoveryDir is where autosaved copies go.
+func defaultRecoveryDir() string {
+	dir, err := os.UserCacheDir()
+	if err != nil {
+		return ""
+	}
+	return filepath.Join(dir, "stave", "recovery")
+}
+
+func (w *Window) mainMenu() *fyne.MainMenu {
+	recent := fyne.NewMenuItem("Open recent", nil)
+	recent.ChildMenu = fyne.NewMenu("")
+	w.fillRecent(recent.ChildMenu)
+	file := fyne.NewMenu("File",
+		fyne.NewMenuItem("New", w.newProject),
+		fyne.NewMenuItem("Open…", w.openDialog),
+		recent,
+		fyne.NewMenuItemSeparator(),
+		fyne.NewMenuItem("Save", func() { w.save(nil) }),
+		fyne.NewMenuItem("Save as…", func() { w.saveAs(nil) }),
+		fyne.NewMenuItemSeparator(),
+		fyne.NewMenuItem("Export drawing as PNG…", func() { w.export("png") }),
+		fyne.NewMenuItem("Export drawing as SVG…", func() { w.export("svg") }),
+		fyne.NewMenuItem("Export drawing as PDF…", func() { w.export("pdf") }),
+		fyne.NewMenuItem("Export calculation sheet (PDF)…", func() { w.export("sheet") }),
+		fyne.NewMenuItem("Export results table (CSV)…", func() { w.export("csv") }),
+	)
+	edit := fyne.NewMenu("Edit",
+		fyne.NewMenuItem("Undo", w.undo),
+		fyne.NewMenuItem("Redo", w.redo),
+		fyne.NewMenuItem("Delete selected", w.deleteSelected),
+	)
+	view := fyne.NewMenu("View",
+		fyne.NewMenuItem("Fit member", w.draw.fit),
+		fyne.NewMenuItem("Zoom in", func() { w.zoom(1.25) }),
+		fyne.NewMenuItem("Zoom out", func() { w.zoom(0.8) }),
+	)
+	return fyne.NewMainMenu(file, edit, view)
+}
+
+func (w *Window) zoom(f float32) {
+	w.draw.view.Zoom(f, w.draw.view.Width/2)
+	w.draw.Refresh()
+}
+
+// addShortcuts binds the keyboard: Ctrl combinations anywhere, bare letters
+// when no entry has the focus.
+func (w *Window) addShortcuts() {
+	c := w.win.Canvas()
+	ctrl := func(k fyne.KeyName, mod fyne.KeyModifier, f func()) {
+		c.AddShortcut(&desktop.CustomShortcut{KeyName: k, Modifier: mod}, func(fyne.Shortcut) { f() })
+	}
+	ctrl(fyne.KeyZ, fyne.KeyModifierShortcutDefault, w.undo)
+	ctrl(fyne.KeyZ, fyne.KeyModifierShortcutDefault|fyne.KeyModifierShift, w.redo)
+	ctrl(fyne.KeyY, fyne.KeyModifierShortcutDefault, w.redo)
+	ctrl(fyne.KeyS, fyne.KeyModifierShortcutDefault, func() { w.save(nil) })
+	ctrl(fyne.KeyS, fyne.KeyModifierShortcutDefault|fyne.KeyModifierShift, func() { w.saveAs(nil) })
+	ctrl(fyne.KeyO, fyne.KeyModifierShortcutDefault, w.openDialog)
+	ctrl(fyne.KeyN, fyne.KeyModifierShortcutDefault, w.newProject)
+	c.SetOnTypedKey(func(k *fyne.KeyEvent) {
+		switch k.Name {
+		case fyne.KeyDelete, fyne.KeyBackspace:
+			w.deleteSelected()
+		case fyne.KeyEscape:
+			w.selectItem(canvasNone)
+			w.setTool(toolPick)
+		}
+	})
+	c.SetOnTypedRune(func(r rune) { w.typedRune(r) })
+}
+
+// typedRune handles the one-letter commands.
+func (w *Window) typedRune(r rune) {
+	switch r {
+	case 'f', 'F':
+		w.draw.fit()
+		return
+	case '+', '=':
+		w.zoom(1.25)
+		return
+	case '-':
+		w.zoom(0.8)
+		return
+	}
+	for _, t := range tools {
+		if r == t.key || r == t.key-'a'+'A' {
+			w.setTool(t.tool)
+			return
+		}
+	}
+}
+
+// chooseFile asks for a file name with the system's dialog, run off the UI
+// goroutine, and falls back to Fyne's own dialog when there is none (no GTK
+// or no display). done runs on the UI goroutine with the chosen path.
+func (w *Window) chooseFile(save bool, title, filterName, ext string, done func(path string)) {
+	go func() {
+		path, err := nativeFile(save, title, filterName, ext, w.path)
+		w.post(func() {
+			switch {
+			case err == nil:
+				done(path)
+			case errors.Is(err, native.ErrCancelled):
+			default:
+				w.fyneFile(save, ext, done)
+			}
+		})
+	}()
+}
+
+// nativeFile runs the system file dialog. The dialog package panics when
+// GTK cannot start; that becomes an error so the caller falls back.
+func nativeFile(save bool, title, filterName, ext, current string) (path string, err error) {
+	defer func() {
+		if r := recover(); r != nil {
+			err = fmt.Errorf("no system file dialog: %v", r)
+		}
+	}()
+	b := native.File().Title(title).Filter(filterName, ext)
+	if current != "" {
+		b = b.SetStartDir(filepath.Dir(current))
+	}
+	if save {
+		path, err = b.Save()
+		if err == nil && !strings.HasSuffix(strings.ToLower(path), "."+ext) {
+			path += "." + ext
+		}
+		return path, err
+	}
+	return b.Load()
+}
+
+func (w *Window) fyneFile(save bool, ext string, done func(string)) {
+	if save {
+		d := dialog.NewFileSave(func(uc fyne.URIWriteCloser, err error) {
+			if err != nil || uc == nil {
+				return
+			}
+			path := uc.URI().Path()
+			uc.Close()
+			done(path)
+		}, w.win)
+		d.SetFilter(storagefilter.NewExtensionFileFilter([]string{"." + ext}))
+		d.SetFileName("member." + ext)
+		d.Resize(fyne.NewSize(900, 600))
+		d.Show()
+		return
+	}
+	d := dialog.NewFileOpen(func(uc fyne.URIReadCloser, err error) {
+		if err != nil || uc == nil {
+			return
+		}
+		path := uc.URI().Path()
+		uc.Close()
+		done(path)
+	}, w.win)
+	d.SetFilter(storagefilter.NewExtensionFileFilter([]string{"." + ext}))
+	d.Resize(fyne.NewSize(900, 600))
+	d.Show()
+}
+
+// confirmDiscard runs then at once when there are no unsaved changes, and
+// otherwise after the user agrees to lose them (or saves them first).
+func (w *Window) confirmDiscard(action string, then func()) {
+	if !w.dirty() {
+		then()
+		return
+	}
+	var d dialog.Dialog
+	d = dialog.NewCustomConfirm("Unsaved changes",
+		"Save first", "Discard changes",
+		widget.NewLabel(fmt.Sprintf("The member has changes that are not saved. Save them before you %s?", action)),
+		func(saveFirst bool) {
+			if saveFirst {
+				w.save(then)
+				return
+			}
+			then()
+		}, w.win)
+	d.Show()
+}
+
+func (w *Window) closeRequested() {
+	w.confirmDiscard("close the window", func() {
+		w.shutdown()
+		w.win.Close()
+	})
+}
+
+// shutdown stops the background work of the window.
+func (w *Window) shutdown() {
+	if w.stopAutosave != nil {
+		w.stopAutosave()
+	}
+	w.solver.stop()
+	if w.recoveryDir != "" {
+		_ = storage.ClearRecovery(w.recoveryDir)
+	}
+}
+
+func (w *Window) newProject() {
+	w.confirmDiscard("start a new member", func() {
+		w.replaceProject(&storage.Project{View: storage.DefaultView()}, "")
+		w.setStatus("new member: choose Member (M) and drag along the drawing")
+	})
+}
+
+func (w *Window) openDialog() {
+	w.confirmDiscard("open another file", func() {
+		w.chooseFile(false, "Open a member", "Stave member", "json", w.openPath)
+	})
+}
+
+// openPath loads path into this window.
+func (w *Window) openPath(path string) {
+	p, err := storage.Load(path)
+	if err != nil {
+		dialog.ShowError(fmt.Errorf("cannot open %s: %w", path, err), w.win)
+		return
+	}
+	w.replaceProject(p, path)
+	w.addRecent(path)
+	w.setStatus("opened %s", path)
+}
+
+// replaceProject shows p (from path) with a fresh undo history.
+func (w *Window) replaceProject(p *storage.Project, path string) {
+	w.project, w.saved, w.path = cloneProject(*p), cloneProject(*p), path
+	w.hist = history{}
+	w.selected = canvasNone
+	w.highlight = [2]float64{}
+	w.units = unitSystem(w.project.View.Units)
+	w.layers = layersFrom(w.project.View.Overlays)
+	w.build()
+	w.setModel(w.project.Model)
+	w.draw.fit()
+}
+
+// save writes to the project's file (asking for one when it has none) and
+// runs then after a successful save.
+func (w *Window) save(then func()) {
+	if w.path == "" {
+		w.saveAs(then)
+		return
+	}
+	w.writeProject(w.path, then)
+}
+
+func (w *Window) saveAs(then func()) {
+	w.chooseFile(true, "Save the member as", "Stave member", "json", func(path string) { w.writeProject(path, then) })
+}
+
+func (w *Window) writeProject(path string, then func()) {
+	w.project.View.Overlays = overlaysFrom(w.layers)
+	if err := storage.Save(path, &w.project); err != nil {
+		dialog.ShowError(fmt.Errorf("the member was not saved: %w", err), w.win)
+		return
+	}
+	w.path = path
+	w.saved = cloneProject(w.project)
+	w.addRecent(path)
+	if w.recoveryDir != "" {
+		_ = storage.ClearRecovery(w.recoveryDir)
+	}
+	w.updateTitle()
+	w.setStatus("saved %s", path)
+	if then != nil {
+		then()
+	}
+}
+
+// addRecent puts path at the top of the recent files.
+func (w *Window) addRecent(path string) {
+	prefs := w.app.Preferences()
+	list := []string{path}
+	for _, p := range prefs.StringList("recent") {
+		if p != path && len(list) < maxRecent {
+			list = append(list, p)
+		}
+	}
+	prefs.SetStringList("recent", list)
+	w.win.SetMainMenu(w.mainMenu())
+}
+
+func (w *Window) fillRecent(m *fyne.Menu) {
+	for _, p := range w.app.Preferences().StringList("recent") {
+		m.Items = append(m.Items, fyne.NewMenuItem(p, func() {
+			w.confirmDiscard("open another file", func() { w.openPath(p) })
+		}))
+	}
+	if len(m.Items) == 0 {
+		none := fyne.NewMenuItem("(none yet)", nil)
+		none.Disabled = true
+		m.Items = append(m.Items, none)
+	}
+}
+
+// startAutosave copies unsaved work to the recovery folder every
+// autosaveEvery. The ticker runs on its own goroutine; the copy is made on
+// the UI goroutine, which owns the project.
+func (w *Window) startAutosave() {
+	t := time.NewTicker(autosaveEvery)
+	quit := make(chan struct{})
+	go func() {
+		for {
+			select {
+			case <-quit:
+				return
+			case <-t.C:
+				w.post(w.autosave)
+			}
+		}
+	}()
+	w.stopAutosave = func() { t.Stop(); close(quit) }
+}
+
+func (w *Window) autosave() {
+	if !w.dirty() {
+		return
+	}
+	w.project.View.Overlays = overlaysFrom(w.layers)
+	if err := storage.WriteRecovery(w.recoveryDir, &w.project, w.path); err != nil {
+		w.setStatus("autosave failed: %v", err)
+	}
+}
+
+// offerRecovery asks whether to restore unsaved work a previous run left.
+func (w *Window) offerRecovery() {
+	if w.recoveryDir == "" {
+		return
+	}
+	r, err := storage.FindRecovery(w.recoveryDir)
+	if err != nil {
+		w.setStatus("%v", err)
+		return
+	}
+	if r == nil {
+		return
+	}
+	of := "an unsaved member"
+	if r.Source != "" {
+		of = r.Source
+	}
+	dialog.ShowConfirm("Restore unsaved work?",
+		fmt.Sprintf("Stave kept a copy of unsaved changes to %s from %s.\nRestore it?", of, r.Written.Local().Format("2 Jan 2006 15:04")),
+		func(yes bool) {
+			if yes {
+				w.replaceProject(r.Project, r.Source)
+				w.saved = storage.Project{}
+				w.updateTitle()
+				w.setStatus("restored unsaved work; save it to keep it")
+				return
+			}
+			_ = storage.ClearRecovery(w.recoveryDir)
+		}, w.win)
+}
+
+// exports are the File ▸ Export products: file extension and writer.
+var exports = map[string]struct {
+	ext   string
+	write func(w *Window, f *os.File) error
+}{
+	"png": {"png", func(w *Window, f *os.File) error { return canvas.WritePNG(f, w.draw.scene, 2) }},
+	"svg": {"svg", func(w *Window, f *os.File) error { return canvas.WriteSVG(f, w.draw.scene) }},
+	"pdf": {"pdf", func(w *Window, f *os.File) error { return canvas.WritePDF(f, w.draw.scene) }},
+}
+
+// export writes one of the exports to a file the user chooses.
+func (w *Window) export(kind string) {
+	e, ok := exports[kind]
+	if !ok {
+		w.setStatus("export of %s is not available in this build", kind)
+		return
+	}
+	w.chooseFile(true, "Export", strings.ToUpper(e.ext)+" file", e.ext, func(path string) {
+		if err := w.writeExport(path, e.write); err != nil {
+			dialog.ShowError(err, w.win)
+			return
+		}
+		w.setStatus("exported %s", path)
+	})
+}
+
+func (w *Window) writeExport(path string, write func(*Window, *os.File) error) error {
+	f, err := os.Create(path)
+	if err != nil {
+		return fmt.Errorf("cannot export: %w", err)
+	}
+	if err := write(w, f); err != nil {
+		f.Close()
+		return fmt.Errorf("cannot export to %s: %w", path, err)
+	}
+	return f.Close()
+}

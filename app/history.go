@@ -1,0 +1,69 @@
+package app
+
+import "stave/fem"
+
+// maxHistory bounds the undo stack so a long session does not hold every
+// model it ever had.
+const maxHistory = 500
+
+// edit is one undoable change of the model. Keeping whole copies of the
+// model (a few hundred bytes to a few kilobytes: the mesh is not part of it)
+// makes every command trivially exact to undo, including a drag that passed
+// through many intermediate states.
+type edit struct {
+	name          string // what the user did, for the status line ("move support 2")
+	before, after fem.Model
+}
+
+// history is the undo/redo stack.
+type history struct {
+	done, undone []edit
+}
+
+// push records an edit that has already been applied and forgets the redo branch.
+func (h *history) push(e edit) {
+	h.done = append(h.done, e)
+	if len(h.done) > maxHistory {
+		h.done = append(h.done[:0:0], h.done[len(h.done)-maxHistory:]...)
+	}
+	h.undone = nil
+}
+
+// undo takes the newest edit off the stack; the caller restores e.before.
+func (h *history) undo() (edit, bool) {
+	if len(h.done) == 0 {
+		return edit{}, false
+	}
+	e := h.done[len(h.done)-1]
+	h.done = h.done[:len(h.done)-1]
+	h.undone = append(h.undone, e)
+	return e, true
+}
+
+// redo takes back the newest undone edit; the caller restores e.after.
+func (h *history) redo() (edit, bool) {
+	if len(h.undone) == 0 {
+		return edit{}, false
+	}
+	e := h.undone[len(h.undone)-1]
+	h.undone = h.undone[:len(h.undone)-1]
+	h.done = append(h.done, e)
+	return e, true
+}
+
+// cloneModel copies m so that no slice is shared with the original.
+func cloneModel(m fem.Model) fem.Model {
+	c := m
+	c.Segments = append([]fem.Segment(nil), m.Segments...)
+	c.Supports = append([]fem.Support(nil), m.Supports...)
+	c.PointLoads = append([]fem.PointLoad(nil), m.PointLoads...)
+	c.DistributedLoad = make([]fem.DistributedLoad, len(m.DistributedLoad))
+	for i, d := range m.DistributedLoad {
+		d.Points = append([]fem.LoadPoint(nil), d.Points...)
+		c.DistributedLoad[i] = d
+	}
+	if m.DistributedLoad == nil {
+		c.DistributedLoad = nil
+	}
+	return c
+}

@@ -1,0 +1,425 @@
+package app
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/layout"
+	"fyne.io/fyne/v2/widget"
+
+	"stave/canvas"
+	"stave/fem"
+	"stave/fem/units"
+	"stave/storage"
+)
+
+// toolInfo describes one button of the tool strip.
+type toolInfo struct {
+	tool  tool
+	label string
+	key   rune // the letter that picks the tool
+	hint  string
+}
+
+var tools = []toolInfo{
+	{toolPick, "Pick", 'q', "click to select, drag an item to move it, double-click a line load to add a vertex"},
+	{toolPan, "Pan", 'h', "drag to move the view (the middle mouse button pans with any tool)"},
+	{toolMember, "Member", 'm', "drag along the drawing to set the member's length"},
+	{toolSplit, "Split", 'b', "click on the member to break a segment in two"},
+	{toolSupport, "Support", 'r', "click on the member to place a support of the kind chosen below"},
+	{toolForce, "Force", 'f', "click on the member to place a point force"},
+	{toolMoment, "Moment", 't', "click on the member to place a point moment"},
+	{toolLineLoad, "Line load", 'l', "drag along the member to place a distributed load; drag its end handles to shape it"},
+	{toolVertex, "Vertex", 'k', "click on a distributed load to add a vertex, then drag it"},
+}
+
+var supportKinds = []fem.SupportKind{fem.Fixed, fem.Pinned, fem.Roller, fem.AxialOnly, fem.Guided, fem.Spring}
+
+// controls are the widgets around the drawing.
+type controls struct {
+	w           *Window
+	toolButtons map[tool]*widget.Button
+	kindSelect  *widget.Select
+	properties  *fyne.Container
+	panel       propertiesPanel
+	readout     *readout
+	checkList   *widget.List
+	summary     *widget.Label
+	elements    *widget.Entry
+	order       *widget.Select
+	unitSelect  *widget.Select
+	grid        *widget.Entry
+	magnify     *widget.Slider
+	magnifyText *widget.Label
+}
+
+// build lays out the window's content.
+func (w *Window) build() {
+	c := &controls{w: w, toolButtons: map[tool]*widget.Button{}}
+	w.ui = c
+	w.status = widget.NewLabel("")
+	w.status.Truncation = fyne.TextTruncateEllipsis
+
+	strip := container.NewVBox(widget.NewLabelWithStyle("Tools", fyne.TextAlignLeading, fyne.TextStyle{Bold: true}))
+	for _, t := range tools {
+		b := widget.NewButton(fmt.Sprintf("%s  (%c)", t.label, t.key-'a'+'A'), func() { w.setTool(t.tool) })
+		b.Alignment = widget.ButtonAlignLeading
+		c.toolButtons[t.tool] = b
+		strip.Add(b)
+	}
+	names := make([]string, len(supportKinds))
+	for i, k := range supportKinds {
+		names[i] = k.String()
+	}
+	c.kindSelect = widget.NewSelect(names, nil)
+	c.kindSelect.SetSelected(w.kind.String())
+	c.kindSelect.OnChanged = func(s string) {
+		if k, ok := fem.ParseSupportKind(s); ok {
+			w.kind = k
+			w.setTool(toolSupport)
+		}
+	}
+	strip.Add(widget.NewLabel("Support kind"))
+	strip.Add(c.kindSelect)
+	strip.Add(widget.NewSeparator())
+	strip.Add(widget.NewButton("Undo", w.undo))
+	strip.Add(widget.NewButton("Redo", w.redo))
+	strip.Add(widget.NewButton("Delete", w.deleteSelected))
+	strip.Add(widget.NewButton("Fit view (F)", w.draw.fit))
+
+	c.properties = container.NewVBox()
+	c.readout = newReadout()
+	c.summary = widget.NewLabel("")
+	c.summary.Wrapping = fyne.TextWrapWord
+	c.checkList = widget.NewList(
+		func() int { return len(w.checks) },
+		func() fyne.CanvasObject {
+			l := widget.NewLabel("")
+			l.Wrapping = fyne.TextWrapWord
+			return l
+		},
+		func(i widget.ListItemID, o fyne.CanvasObject) {
+			r := w.checks[i]
+			l := o.(*widget.Label)
+			l.SetText(r.status + "  " + r.message)
+			l.Importance = r.importance
+			l.Refresh()
+		})
+	c.checkList.OnSelected = func(i widget.ListItemID) {
+		if i < len(w.checks) {
+			w.highlight = w.checks[i].span
+			w.draw.Refresh()
+		}
+	}
+	c.checkList.OnUnselected = func(widget.ListItemID) {
+		w.highlight = [2]float64{}
+		w.draw.Refresh()
+	}
+
+	side := container.NewVSplit(
+		container.NewVScroll(c.properties),
+		container.NewVSplit(
+			container.NewBorder(heading("At the mouse"), nil, nil, nil, c.readout.grid),
+			container.NewBorder(container.NewVBox(heading("Checks"), c.summary), nil, nil, nil, c.checkList)))
+	side.SetOffset(0.36)
+
+	center := container.NewBorder(c.settingsBar(), c.layerBar(), nil, nil, w.draw)
+	warning := widget.NewLabelWithStyle(caution, fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
+	warning.Importance = widget.WarningImportance
+	warning.Wrapping = fyne.TextWrapWord
+	bottom := container.NewVBox(widget.NewSeparator(), w.status, warning)
+
+	split := container.NewHSplit(center, side)
+	split.SetOffset(0.72)
+	w.win.SetContent(container.NewBorder(nil, bottom, container.NewVScroll(strip), nil, split))
+	w.win.SetMainMenu(w.mainMenu())
+	w.addShortcuts()
+	w.setTool(toolPick)
+}
+
+func heading(s string) *widget.Label {
+	return widget.NewLabelWithStyle(s, fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
+}
+
+// settingsBar holds the mesh, grid and unit settings above the drawing.
+func (c *controls) settingsBar() fyne.CanvasObject {
+	w := c.w
+	c.elements = widget.NewEntry()
+	c.elements.OnSubmitted = func(s string) { w.setElements(s) }
+	finer := widget.NewButton("×2", func() { w.scaleElements(2) })
+	coarser := widget.NewButton("÷2", func() { w.scaleElements(0.5) })
+	c.order = widget.NewSelect([]string{"linear bar", "quadratic bar"}, func(s string) {
+		order := fem.LinearBar
+		if s == "quadratic bar" {
+			order = fem.QuadraticBar
+		}
+		if w.project.Model.Mesh.BarOrder != order && !(order == fem.LinearBar && w.project.Model.Mesh.BarOrder == 0) {
+			w.apply("use "+s+" elements", func(m *fem.Model) error { m.Mesh.BarOrder = order; return nil })
+		}
+	})
+	c.unitSelect = widget.NewSelect([]string{units.SI.Name, units.USCustomary.Name}, func(s string) {
+		if sys, ok := units.ByName(s); ok && sys.Name != w.units.Name {
+			w.setUnits(sys)
+		}
+	})
+	c.unitSelect.SetSelected(w.units.Name)
+	c.grid = widget.NewEntry()
+	c.grid.OnSubmitted = func(s string) { w.setGrid(s) }
+	c.showGrid()
+	return container.NewHBox(
+		widget.NewLabel("Elements"), container.NewGridWrap(fyne.NewSize(80, c.elements.MinSize().Height), c.elements), finer, coarser,
+		widget.NewLabel("Bars"), c.order,
+		widget.NewLabel("Snap step"), container.NewGridWrap(fyne.NewSize(110, c.grid.MinSize().Height), c.grid),
+		widget.NewLabel("Units"), c.unitSelect)
+}
+
+// layerBar holds the overlay switches and the magnification below the drawing.
+func (c *controls) layerBar() fyne.CanvasObject {
+	w := c.w
+	toggle := func(label string, on *bool) fyne.CanvasObject {
+		ch := widget.NewCheck(label, func(v bool) {
+			*on = v
+			w.draw.Refresh()
+			w.updateTitle()
+		})
+		ch.SetChecked(*on)
+		return ch
+	}
+	l := &w.layers
+	c.magnify = widget.NewSlider(0, 4) // log10 of the magnification
+	c.magnify.Step = 0.05
+	c.magnify.OnChanged = func(v float64) {
+		w.project.View.Magnification = math.Round(math.Pow(10, v))
+		c.showMagnification()
+		w.draw.Refresh()
+	}
+	auto := widget.NewButton("auto", func() {
+		w.project.View.Magnification = 0
+		c.showMagnification()
+		w.draw.Refresh()
+	})
+	c.magnifyText = widget.NewLabel("")
+	c.showMagnification()
+	return container.NewVBox(
+		container.NewHBox(
+			toggle("Deflected shape", &l.Deformed), toggle("Axial force", &l.AxialForce),
+			toggle("Shear", &l.ShearForce), toggle("Moment", &l.BendingMoment),
+			toggle("Stress", &l.Stress), toggle("Nodes", &l.Nodes),
+			toggle("Exact vs FE", &l.ExactBand), toggle("Dimensions", &l.Dimensions)),
+		container.NewBorder(nil, nil, widget.NewLabel("Deflection scale"), container.NewHBox(c.magnifyText, auto), c.magnify))
+}
+
+func (c *controls) showMagnification() {
+	m := c.w.project.View.Magnification
+	if m > 0 {
+		c.magnifyText.SetText(fmt.Sprintf("×%s", units.FormatNumber(m)))
+		c.magnify.Value = math.Log10(m)
+		c.magnify.Refresh()
+		return
+	}
+	text := "×auto"
+	if s := c.w.draw.scene; s != nil && s.Magnification > 0 {
+		text = fmt.Sprintf("×%s (auto)", units.FormatNumber(s.Magnification))
+	}
+	c.magnifyText.SetText(text)
+}
+
+func (c *controls) showGrid() {
+	g := c.w.project.View.GridStep
+	if g > 0 {
+		c.grid.SetText(c.w.units.Format(units.Position, g))
+	} else {
+		c.grid.SetText("auto")
+	}
+}
+
+// showMesh shows the mesh settings of the current model.
+func (c *controls) showMesh() {
+	ms := c.w.project.Model.Mesh
+	c.elements.SetText(strconv.Itoa(ms.Elements))
+	if ms.BarOrder == fem.QuadraticBar {
+		c.order.SetSelected("quadratic bar")
+	} else {
+		c.order.SetSelected("linear bar")
+	}
+}
+
+func (w *Window) setTool(t tool) {
+	w.tool = t
+	for k, b := range w.ui.toolButtons {
+		if k == t {
+			b.Importance = widget.HighImportance
+		} else {
+			b.Importance = widget.MediumImportance
+		}
+		b.Refresh()
+	}
+	for _, info := range tools {
+		if info.tool == t {
+			hint := info.hint
+			if t == toolSupport {
+				hint = strings.Replace(hint, "the kind chosen below", "kind "+w.kind.String(), 1)
+			}
+			w.setStatus("%s: %s", info.label, hint)
+		}
+	}
+}
+
+// maxElements bounds what a typo in the element count can ask of the solver.
+const maxElements = 200000
+
+func (w *Window) setElements(text string) {
+	n, err := strconv.Atoi(strings.TrimSpace(text))
+	if err != nil || n < 1 || n > maxElements {
+		w.setStatus("element count: type a whole number from 1 to %d; got %q", maxElements, text)
+		w.ui.showMesh()
+		return
+	}
+	w.apply(fmt.Sprintf("use %d elements", n), func(m *fem.Model) error { m.Mesh.Elements = n; return nil })
+}
+
+func (w *Window) scaleElements(f float64) {
+	n := max(1, min(maxElements, int(math.Round(float64(max(w.project.Model.Mesh.Elements, 1))*f))))
+	w.setElements(strconv.Itoa(n))
+}
+
+func (w *Window) setGrid(text string) {
+	t := strings.TrimSpace(text)
+	if t == "" || t == "auto" || t == "0" {
+		w.project.View.GridStep = 0
+	} else {
+		g, err := w.units.Parse(units.Position, t)
+		if err != nil || g <= 0 {
+			w.setStatus("snap step: %v (type a length such as 0.25 m, or auto)", errOr(err, "must be positive"))
+			w.ui.showGrid()
+			return
+		}
+		w.project.View.GridStep = g
+	}
+	w.ui.showGrid()
+	w.updateTitle()
+}
+
+func errOr(err error, text string) string {
+	if err != nil {
+		return err.Error()
+	}
+	return text
+}
+
+func (w *Window) setUnits(s units.System) {
+	w.units = s
+	w.project.View.Units = storageUnits(s)
+	w.ui.showGrid()
+	w.ui.showProperties()
+	if w.result != nil {
+		w.checks = checkRows(w.result, w.checkOptions(), w.units)
+		w.ui.showResults()
+	}
+	w.hoverChanged()
+	w.draw.Refresh()
+	w.updateTitle()
+}
+
+// hoverChanged updates the readout for the mouse position.
+func (w *Window) hoverChanged() {
+	w.ui.readout.show(w)
+}
+
+// showResults refreshes everything that shows the newest analysis.
+func (c *controls) showResults() {
+	w := c.w
+	c.summary.SetText(resultSummary(w.result, w.units))
+	c.checkList.UnselectAll()
+	c.checkList.Refresh()
+	c.showMagnification()
+	w.hoverChanged()
+}
+
+// readout shows every quantity at the mouse x, finite element beside exact.
+type readout struct {
+	grid   *fyne.Container
+	labels [][3]*widget.Label
+}
+
+type quantity struct {
+	name string
+	q    units.Quantity
+	get  func(f fem.Fields) float64
+}
+
+var readoutQuantities = []quantity{
+	{"axial displacement u", units.Deflection, func(f fem.Fields) float64 { return f.AxialDisplacement }},
+	{"deflection w", units.Deflection, func(f fem.Fields) float64 { return f.Deflection }},
+	{"rotation θ", units.Rotation, func(f fem.Fields) float64 { return f.Rotation }},
+	{"axial force N", units.Force, func(f fem.Fields) float64 { return f.AxialForce }},
+	{"shear force V", units.Force, func(f fem.Fields) float64 { return f.ShearForce }},
+	{"bending moment M", units.Moment, func(f fem.Fields) float64 { return f.BendingMoment }},
+	{"axial stress N/A", units.Stress, func(f fem.Fields) float64 { return f.AxialStress }},
+	{"bending stress Mc/I", units.Stress, func(f fem.Fields) float64 { return f.BendingStress }},
+	{"combined stress", units.Stress, func(f fem.Fields) float64 { return f.CombinedStress }},
+}
+
+func newReadout() *readout {
+	r := &readout{grid: container.New(layout.NewGridLayoutWithColumns(3))}
+	row := func(a, b, c string) {
+		ls := [3]*widget.Label{widget.NewLabel(a), widget.NewLabel(b), widget.NewLabel(c)}
+		for _, l := range ls {
+			l.Truncation = fyne.TextTruncateEllipsis
+			r.grid.Add(l)
+		}
+		r.labels = append(r.labels, ls)
+	}
+	row("x", "finite element", "exact")
+	for _, q := range readoutQuantities {
+		row(q.name, "", "")
+	}
+	return r
+}
+
+func (r *readout) show(w *Window) {
+	d := w.draw
+	a := w.result
+	m := &w.project.Model
+	if !d.hovering || a == nil || a.solution == nil || d.hoverX < 0 || d.hoverX > m.Length() {
+		r.labels[0][0].SetText("x  (move the mouse over the member)")
+		for i := range readoutQuantities {
+			r.labels[i+1][1].SetText("")
+			r.labels[i+1][2].SetText("")
+		}
+		return
+	}
+	x := d.hoverX
+	r.labels[0][0].SetText("x = " + w.units.Format(units.Position, x))
+	fe := a.solution.At(x, fem.Right)
+	var ex fem.Fields
+	if a.exact != nil {
+		ex = a.exact.At(x, fem.Right)
+	}
+	for i, q := range readoutQuantities {
+		r.labels[i+1][1].SetText(w.units.Format(q.q, q.get(fe)))
+		if a.exact != nil {
+			r.labels[i+1][2].SetText(w.units.Format(q.q, q.get(ex)))
+		} else {
+			r.labels[i+1][2].SetText("—")
+		}
+	}
+}
+
+// storageUnits names s the way project files do.
+func storageUnits(s units.System) storage.UnitSystem {
+	if s.Name == units.USCustomary.Name {
+		return storage.US
+	}
+	return storage.SI
+}
+
+// describeRef is describe with a capital letter, for panel titles.
+func describeRef(r canvas.Ref) string {
+	s := describe(r)
+	return strings.ToUpper(s[:1]) + s[1:]
+}

@@ -1,0 +1,284 @@
+package app
+
+import (
+	"fmt"
+	"strings"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/layout"
+	"fyne.io/fyne/v2/widget"
+
+	"stave/canvas"
+	"stave/fem"
+	"stave/fem/units"
+)
+
+// field is one number of the selected item, shown and typed in display units.
+type field struct {
+	label string
+	q     units.Quantity
+	get   func(m *fem.Model) float64
+	set   func(m *fem.Model, v float64)
+}
+
+// fieldsFor lists the editable numbers of the item r.
+func fieldsFor(m *fem.Model, r canvas.Ref) []field {
+	i := r.Index
+	pos := func(label string, p func(m *fem.Model) *float64) field {
+		return field{label, units.Position, func(m *fem.Model) float64 { return *p(m) }, func(m *fem.Model, v float64) { *p(m) = v }}
+	}
+	num := func(label string, q units.Quantity, p func(m *fem.Model) *float64) field {
+		f := pos(label, p)
+		f.q = q
+		return f
+	}
+	switch r.Kind {
+	case canvas.None, canvas.Member, canvas.MemberEnd:
+		if len(m.Segments) == 0 {
+			return []field{{"Length", units.Position, func(*fem.Model) float64 { return 0 },
+				func(m *fem.Model, v float64) { _ = setLength(m, v) }}}
+		}
+		return []field{
+			{"Length", units.Position, func(m *fem.Model) float64 { return m.Length() }, func(m *fem.Model, v float64) { _ = setLength(m, v) }},
+			num("Temperature change", units.TemperatureChange, func(m *fem.Model) *float64 { return &m.TemperatureChange }),
+			num("Gravity along x", units.Acceleration, func(m *fem.Model) *float64 { return &m.Gravity[0] }),
+			num("Gravity across (up +)", units.Acceleration, func(m *fem.Model) *float64 { return &m.Gravity[1] }),
+		}
+	case canvas.Segment:
+		s := func(m *fem.Model) *fem.Segment { return &m.Segments[i] }
+		return []field{
+			pos("End x", func(m *fem.Model) *float64 { return &s(m).End }),
+			num("Area A", units.Area, func(m *fem.Model) *float64 { return &s(m).Section.Area }),
+			num("Second moment I", units.SecondMoment, func(m *fem.Model) *float64 { return &s(m).Section.SecondMoment }),
+			num("Extreme fibre c", units.Dimension, func(m *fem.Model) *float64 { return &s(m).Section.FibreDistance }),
+			num("Young's modulus E", units.Modulus, func(m *fem.Model) *float64 { return &s(m).Material.Elastic }),
+			num("Density", units.Density, func(m *fem.Model) *float64 { return &s(m).Material.Density }),
+			num("Thermal expansion α", units.ThermalExpansion, func(m *fem.Model) *float64 { return &s(m).Material.ThermalExpansion }),
+			num("Allowable stress (0 = none)", units.Stress, func(m *fem.Model) *float64 { return &s(m).Material.Allowable }),
+		}
+	case canvas.Support:
+		s := func(m *fem.Model) *fem.Support { return &m.Supports[i] }
+		fs := []field{pos("x", func(m *fem.Model) *float64 { return &s(m).X })}
+		k := m.Supports[i].Kind
+		if k == fem.Spring {
+			fs = append(fs,
+				num("Axial stiffness", units.TranslationalStiffness, func(m *fem.Model) *float64 { return &s(m).Stiffness[0] }),
+				num("Transverse stiffness", units.TranslationalStiffness, func(m *fem.Model) *float64 { return &s(m).Stiffness[1] }),
+				num("Rotational stiffness", units.RotationalStiffness, func(m *fem.Model) *float64 { return &s(m).Stiffness[2] }))
+		}
+		for d, q := range []units.Quantity{units.Deflection, units.Deflection, units.Rotation} {
+			if k.Restrains(fem.Dof(d)) {
+				fs = append(fs, num("Settlement "+fem.Dof(d).String(), q, func(m *fem.Model) *float64 { return &s(m).Settlement[d] }))
+			}
+		}
+		return fs
+	case canvas.PointLoad:
+		p := func(m *fem.Model) *fem.PointLoad { return &m.PointLoads[i] }
+		return []field{
+			pos("x", func(m *fem.Model) *float64 { return &p(m).X }),
+			num("Axial force (+ along x)", units.Force, func(m *fem.Model) *float64 { return &p(m).Axial }),
+			num("Transverse force (+ up)", units.Force, func(m *fem.Model) *float64 { return &p(m).Transverse }),
+			num("Moment (+ counter-clockwise)", units.Moment, func(m *fem.Model) *float64 { return &p(m).Moment }),
+		}
+	case canvas.DistributedLoad, canvas.LoadVertex:
+		var fs []field
+		for k := range m.DistributedLoad[i].Points {
+			pt := func(m *fem.Model) *fem.LoadPoint { return &m.DistributedLoad[i].Points[k] }
+			fs = append(fs,
+				pos(fmt.Sprintf("Vertex %d x", k+1), func(m *fem.Model) *float64 { return &pt(m).X }),
+				num(fmt.Sprintf("Vertex %d intensity", k+1), units.LineLoad, func(m *fem.Model) *float64 { return &pt(m).Intensity }))
+		}
+		return fs
+	}
+	return nil
+}
+
+// propertiesPanel is the state of the panel for the selected item.
+type propertiesPanel struct {
+	key     string // what the panel was built for; a new key rebuilds it
+	fields  []field
+	entries []*widget.Entry
+	shown   []string // the text each entry was last given
+}
+
+// panelKey says which widgets the panel for r needs: the same key means the
+// panel can be kept and only its values updated. Rebuilding on every edit
+// would create widgets (and Fyne's cached renderers for them) at the rate
+// of mouse events during a drag.
+func panelKey(m *fem.Model, r canvas.Ref, fields []field, u units.System) string {
+	k := fmt.Sprintf("%v|%s|", r, u.Name)
+	for _, f := range fields {
+		k += f.label + "|"
+	}
+	switch r.Kind {
+	case canvas.Support:
+		k += m.Supports[r.Index].Kind.String()
+	case canvas.DistributedLoad, canvas.LoadVertex:
+		k += m.DistributedLoad[r.Index].Direction.String()
+	case canvas.Segment:
+		k += m.Segments[r.Index].Material.Name
+	}
+	return k
+}
+
+// showProperties shows the selected item in the properties panel.
+func (c *controls) showProperties() {
+	w := c.w
+	m := &w.project.Model
+	r := w.selected
+	title := "Member"
+	if r.Kind != canvas.None && r.Kind != canvas.MemberEnd {
+		title = describeRef(r)
+	}
+	fields := fieldsFor(m, r)
+	p := &c.panel
+	key := panelKey(m, r, fields, w.units)
+	if key == p.key {
+		for k, f := range fields {
+			text := w.units.Format(f.q, f.get(m))
+			if p.entries[k].Text == p.shown[k] { // leave what the user is typing
+				p.entries[k].SetText(text)
+			}
+			p.shown[k] = text
+		}
+		return
+	}
+	p.key = key
+	message := widget.NewLabel("")
+	message.Wrapping = fyne.TextWrapWord
+	message.Importance = widget.DangerImportance
+	entries := make([]*widget.Entry, len(fields))
+	shown := make([]string, len(fields))
+	p.fields, p.entries, p.shown = fields, entries, shown
+	form := container.New(layout.NewFormLayout())
+	applyAll := func() {
+		if err := w.applyFields(title, r, fields, entries, shown); err != nil {
+			message.SetText(err.Error())
+			return
+		}
+		c.panel.key = "" // show the applied values as the panel formats them
+		c.showProperties()
+	}
+	for k, f := range fields {
+		e := widget.NewEntry()
+		shown[k] = w.units.Format(f.q, f.get(m))
+		e.SetText(shown[k])
+		e.OnSubmitted = func(string) { applyAll() }
+		entries[k] = e
+		label := widget.NewLabel(f.label)
+		if r.Kind == canvas.LoadVertex && strings.HasPrefix(f.label, fmt.Sprintf("Vertex %d ", r.Vertex+1)) {
+			label.TextStyle.Bold = true
+		}
+		form.Add(label)
+		form.Add(e)
+	}
+	objects := []fyne.CanvasObject{heading("Properties — " + title)}
+	objects = append(objects, c.choices(r)...)
+	objects = append(objects, form)
+	if len(fields) > 0 {
+		objects = append(objects, container.NewHBox(widget.NewButton("Apply", applyAll),
+			widget.NewLabel("(Enter applies; units may be typed, e.g. 12 kN)")))
+	}
+	if r.Kind == canvas.Segment {
+		name := widget.NewEntry()
+		name.SetText(m.Segments[r.Index].Material.Name)
+		name.OnSubmitted = func(s string) {
+			i := r.Index
+			w.apply("rename the material of segment "+fmt.Sprint(i+1), func(m *fem.Model) error {
+				m.Segments[i].Material.Name = s
+				return nil
+			})
+		}
+		objects = append(objects, container.NewBorder(nil, nil, widget.NewLabel("Material name"), nil, name))
+	}
+	if r.Kind != canvas.None {
+		objects = append(objects, widget.NewButton("Delete "+describe(r), w.deleteSelected))
+	}
+	objects = append(objects, message)
+	c.properties.Objects = objects
+	c.properties.Refresh()
+}
+
+// choices are the non-numeric settings of the item r, applied as soon as changed.
+func (c *controls) choices(r canvas.Ref) []fyne.CanvasObject {
+	w := c.w
+	m := &w.project.Model
+	switch r.Kind {
+	case canvas.Support:
+		names := make([]string, len(supportKinds))
+		for i, k := range supportKinds {
+			names[i] = k.String()
+		}
+		s := widget.NewSelect(names, nil)
+		s.SetSelected(m.Supports[r.Index].Kind.String())
+		s.OnChanged = func(name string) {
+			k, _ := fem.ParseSupportKind(name)
+			if k != w.project.Model.Supports[r.Index].Kind {
+				w.apply(fmt.Sprintf("make %s %s", describe(r), name), func(m *fem.Model) error {
+					m.Supports[r.Index].Kind = k
+					return nil
+				})
+			}
+		}
+		return []fyne.CanvasObject{container.NewBorder(nil, nil, widget.NewLabel("Kind"), nil, s)}
+	case canvas.DistributedLoad, canvas.LoadVertex:
+		s := widget.NewSelect([]string{"transverse (+ up)", "axial (+ along x)"}, nil)
+		dir := m.DistributedLoad[r.Index].Direction
+		if dir == fem.Axial {
+			s.SetSelected("axial (+ along x)")
+		} else {
+			s.SetSelected("transverse (+ up)")
+		}
+		s.OnChanged = func(name string) {
+			d := fem.Transverse
+			if strings.HasPrefix(name, "axial") {
+				d = fem.Axial
+			}
+			if d != w.project.Model.DistributedLoad[r.Index].Direction {
+				w.apply(fmt.Sprintf("make distributed load %d %s", r.Index+1, d), func(m *fem.Model) error {
+					m.DistributedLoad[r.Index].Direction = d
+					return nil
+				})
+			}
+		}
+		return []fyne.CanvasObject{container.NewBorder(nil, nil, widget.NewLabel("Direction"), nil, s)}
+	}
+	return nil
+}
+
+// applyFields parses the changed entries and applies them together as one
+// edit; a value that does not parse, or a model that does not validate,
+// changes nothing. Untouched entries are skipped because they show values
+// rounded to four figures.
+func (w *Window) applyFields(title string, r canvas.Ref, fields []field, entries []*widget.Entry, shown []string) error {
+	values := make([]float64, len(fields))
+	changed := make([]bool, len(fields))
+	anyChanged := false
+	for k, f := range fields {
+		if entries[k].Text == shown[k] {
+			continue
+		}
+		changed[k], anyChanged = true, true
+		v, err := w.units.Parse(f.q, entries[k].Text)
+		if err != nil {
+			return fmt.Errorf("%s: %v", f.label, err)
+		}
+		values[k] = v
+	}
+	if !anyChanged {
+		return nil
+	}
+	return w.apply("edit "+strings.ToLower(title[:1])+title[1:], func(m *fem.Model) error {
+		for k, f := range fields {
+			if !changed[k] {
+				continue
+			}
+			if r.Kind <= canvas.MemberEnd && k == 0 && !(values[0] > 0) {
+				return fmt.Errorf("the member length must be positive; got %s", w.units.Format(units.Position, values[0]))
+			}
+			f.set(m, values[k])
+		}
+		return nil
+	})
+}

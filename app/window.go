@@ -1,0 +1,503 @@
+package app
+
+import (
+	"fmt"
+	"math"
+	"path/filepath"
+	"reflect"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/driver/desktop"
+	"fyne.io/fyne/v2/widget"
+
+	"stave/canvas"
+	"stave/fem"
+	"stave/fem/units"
+	"stave/storage"
+)
+
+// caution is shown in the status line at all times.
+const caution = "Results are an aid for checking only — a qualified engineer must review them; local codes and licensed practice govern."
+
+// Window is one sketch-and-solve window on one project.
+type Window struct {
+	app fyne.App
+	win fyne.Window
+
+	project storage.Project // the live project; Model is replaced, never changed in place
+	saved   storage.Project // the project as last opened or saved, to tell unsaved changes
+	path    string          // file of the project; "" until saved
+
+	hist     history
+	solver   *solver
+	post     func(func())
+	pending  uint64    // sequence number of the newest model sent to the solver
+	result   *analysis // newest delivered analysis; nil before the first
+	checks   []checkRow
+	selected canvas.Ref
+	tool     tool
+	kind     fem.SupportKind // support kind the support tool places
+	layers   canvas.Layers
+	units    units.System
+	// highlight is the x range of the selected check, m.
+	highlight [2]float64
+
+	draw   *drawing
+	ui     *controls
+	status *widget.Label
+
+	recoveryDir  string
+	stopAutosave func()
+}
+
+// options are the parts of a window that tests replace.
+type options struct {
+	post        func(func()) // how results reach the UI goroutine
+	recoveryDir string       // "" disables autosave and recovery
+	autosave    bool
+}
+
+// NewWindow opens a window on p (a new empty project when p is nil); path is
+// the file p came from, or "".
+func NewWindow(a fyne.App, p *storage.Project, path string) *Window {
+	return newWindow(a, p, path, options{post: fyne.Do, recoveryDir: defaultRecoveryDir(), autosave: true})
+}
+
+func newWindow(a fyne.App, p *storage.Project, path string, o options) *Window {
+	w := &Window{app: a, post: o.post, recoveryDir: o.recoveryDir, path: path, kind: fem.Pinned}
+	if p == nil {
+		p = &storage.Project{View: storage.DefaultView()}
+	}
+	w.project = cloneProject(*p)
+	w.saved = cloneProject(*p)
+	w.units = unitSystem(w.project.View.Units)
+	w.layers = layersFrom(w.project.View.Overlays)
+	w.win = a.NewWindow("Stave")
+	w.draw = newDrawing(w)
+	w.solver = newSolver(analyse, w.post, w.deliver)
+	w.build()
+	w.win.Resize(fyne.NewSize(1280, 800))
+	w.win.SetCloseIntercept(w.closeRequested)
+	w.draw.fit()
+	w.setModel(w.project.Model)
+	if o.autosave && w.recoveryDir != "" {
+		w.startAutosave()
+	}
+	return w
+}
+
+// Show shows the window.
+func (w *Window) Show() { w.win.Show() }
+
+// Model returns the current model (not to be changed by the caller).
+func (w *Window) Model() fem.Model { return w.project.Model }
+
+// cloneProject copies p so the copy shares no slices with p.
+func cloneProject(p storage.Project) storage.Project {
+	c := p
+	c.Model = cloneModel(p.Model)
+	c.LoadOrder = append([]storage.LoadKind(nil), p.LoadOrder...)
+	return c
+}
+
+func unitSystem(u storage.UnitSystem) units.System {
+	if s, ok := units.ByName(string(u)); ok {
+		return s
+	}
+	return units.SI
+}
+
+func layersFrom(o storage.Overlays) canvas.Layers {
+	return canvas.Layers{Deformed: o.DeformedShape, AxialForce: o.AxialForce, ShearForce: o.ShearForce,
+		BendingMoment: o.BendingMoment, Stress: o.Stress, Nodes: o.Nodes, ExactBand: o.ExactBand, Dimensions: true}
+}
+
+func overlaysFrom(l canvas.Layers) storage.Overlays {
+	return storage.Overlays{DeformedShape: l.Deformed, AxialForce: l.AxialForce, ShearForce: l.ShearForce,
+		BendingMoment: l.BendingMoment, Stress: l.Stress, Nodes: l.Nodes, ExactBand: l.ExactBand}
+}
+
+// dirty reports unsaved changes.
+func (w *Window) dirty() bool {
+	w.project.View.Overlays = overlaysFrom(w.layers)
+	return !reflect.DeepEqual(w.project, w.saved)
+}
+
+func (w *Window) updateTitle() {
+	name := "untitled"
+	if w.path != "" {
+		name = filepath.Base(w.path)
+	}
+	mark := ""
+	if w.dirty() {
+		mark = " •"
+	}
+	w.win.SetTitle("Stave — " + name + mark)
+}
+
+// setStatus shows a message beside the caution.
+func (w *Window) setStatus(format string, args ...any) {
+	w.status.SetText(fmt.Sprintf(format, args...))
+}
+
+// validate accepts an empty sketch and otherwise asks fem.
+func validate(m *fem.Model) error {
+	if len(m.Segments) == 0 {
+		return nil
+	}
+	return m.Validate()
+}
+
+// apply runs change on a copy of the model and, when the result is a valid
+// model, makes it current as one undoable edit. A failing change leaves the
+// model as it was and says why in the status line.
+func (w *Window) apply(name string, change func(m *fem.Model) error) error {
+	cand := cloneModel(w.project.Model)
+	if err := change(&cand); err != nil {
+		w.setStatus("%s: %v", name, err)
+		return err
+	}
+	if err := validate(&cand); err != nil {
+		w.setStatus("%s not applied: %v", name, err)
+		return err
+	}
+	before := w.project.Model
+	w.setModel(cand)
+	w.hist.push(edit{name: name, before: before, after: cand})
+	w.setStatus("%s", name)
+	return nil
+}
+
+// setModel makes m current and sends it to the solver; m must not be changed afterwards.
+func (w *Window) setModel(m fem.Model) {
+	w.project.Model = m
+	w.pending = w.solver.submit(m)
+	w.keepSelectionValid()
+	w.modelChanged()
+}
+
+// modelChanged brings everything that shows the model up to date.
+func (w *Window) modelChanged() {
+	w.draw.Refresh()
+	w.ui.showProperties()
+	w.ui.showMesh()
+	w.updateTitle()
+}
+
+func (w *Window) undo() {
+	if e, ok := w.hist.undo(); ok {
+		w.setModel(e.before)
+		w.setStatus("undid %s", e.name)
+	} else {
+		w.setStatus("nothing to undo")
+	}
+}
+
+func (w *Window) redo() {
+	if e, ok := w.hist.redo(); ok {
+		w.setModel(e.after)
+		w.setStatus("redid %s", e.name)
+	} else {
+		w.setStatus("nothing to redo")
+	}
+}
+
+// keepSelectionValid drops a selection whose item no longer exists.
+func (w *Window) keepSelectionValid() {
+	m := &w.project.Model
+	r := w.selected
+	ok := true
+	switch r.Kind {
+	case canvas.Support:
+		ok = r.Index < len(m.Supports)
+	case canvas.PointLoad:
+		ok = r.Index < len(m.PointLoads)
+	case canvas.DistributedLoad:
+		ok = r.Index < len(m.DistributedLoad)
+	case canvas.LoadVertex:
+		ok = r.Index < len(m.DistributedLoad) && r.Vertex < len(m.DistributedLoad[r.Index].Points)
+	case canvas.Segment:
+		ok = r.Index < len(m.Segments)
+	case canvas.Member, canvas.MemberEnd:
+		ok = len(m.Segments) > 0
+	}
+	if !ok {
+		w.selected = canvas.Ref{}
+	}
+}
+
+func (w *Window) selectItem(r canvas.Ref) {
+	if r.Kind == canvas.CheckMark {
+		return
+	}
+	w.selected = r
+	w.draw.Refresh()
+	w.ui.showProperties()
+}
+
+func (w *Window) deleteSelected() {
+	r := w.selected
+	if r.Kind == canvas.None {
+		w.setStatus("nothing selected to delete: click an item with the Pick tool first")
+		return
+	}
+	if w.apply("delete "+describe(r), func(m *fem.Model) error { return remove(m, r) }) == nil {
+		w.selected = canvas.Ref{}
+		w.modelChanged()
+	}
+}
+
+// deliver takes a finished analysis on the UI goroutine.
+func (w *Window) deliver(a analysis) {
+	if a.seq != w.pending {
+		return // stale: the model changed since
+	}
+	w.result = &a
+	w.checks = checkRows(&a, w.checkOptions(), w.units)
+	w.ui.showResults()
+	w.draw.Refresh()
+}
+
+// sceneInput gathers what the drawing shows.
+func (w *Window) sceneInput() canvas.Input {
+	in := canvas.Input{
+		Model:         &w.project.Model,
+		Layers:        w.layers,
+		Magnification: w.project.View.Magnification,
+		Units:         w.units,
+		Selected:      w.selected,
+		HoverX:        w.draw.hoverX,
+		Hovering:      w.draw.hovering,
+		Highlight:     w.highlight,
+	}
+	if a := w.result; a != nil && a.seq == w.pending {
+		in.Solution, in.Exact = a.solution, a.exact
+		in.Problem = a.problem()
+		in.Unreliable = unreliable(w.checks)
+	} else if a != nil && len(w.project.Model.Segments) > 0 {
+		// Results of a slightly older model while the new one is solved:
+		// they follow the drag smoothly and are replaced within moments.
+		in.Solution, in.Exact = a.solution, a.exact
+	}
+	if len(w.project.Model.Segments) == 0 {
+		in.Solution, in.Exact = nil, nil
+	}
+	return in
+}
+
+// gridStep is the snapping step, m: the user's grid, or with none a round
+// step of about ten pixels so dragged positions come out as tidy numbers.
+func (w *Window) gridStep(metresPerPixel float64) float64 {
+	if g := w.project.View.GridStep; g > 0 {
+		return g
+	}
+	return math.Pow(10, math.Floor(math.Log10(metresPerPixel*10)))
+}
+
+// click applies the current tool at p.
+func (w *Window) click(p fyne.Position, double bool) {
+	hit := w.draw.hit(p)
+	x := w.draw.snapX(p.X, canvas.Ref{})
+	noMember := len(w.project.Model.Segments) == 0
+	switch w.tool {
+	case toolPick, toolPan:
+		if double && (hit.Kind == canvas.DistributedLoad || hit.Kind == canvas.LoadVertex) {
+			w.addVertex(hit.Index, w.draw.view.ToModelX(p.X))
+			return
+		}
+		w.selectItem(hit)
+	case toolMember:
+		w.setStatus("drag along the drawing to give the member its length, or type it under Properties")
+	case toolSplit:
+		w.apply(fmt.Sprintf("split the member at x = %s", w.units.Format(units.Position, x)),
+			func(m *fem.Model) error { return splitSegment(m, x) })
+	case toolVertex:
+		if hit.Kind != canvas.DistributedLoad && hit.Kind != canvas.LoadVertex {
+			w.setStatus("click on a distributed load to add a vertex to it")
+			return
+		}
+		w.addVertex(hit.Index, w.draw.view.ToModelX(p.X))
+	case toolSupport, toolForce, toolMoment:
+		if noMember {
+			w.setStatus("draw the member first: choose Member and drag along the drawing")
+			return
+		}
+		w.place(x)
+	case toolLineLoad:
+		w.setStatus("drag along the member to give the line load its span")
+	}
+}
+
+// place puts a support or point load at x and selects it.
+func (w *Window) place(x float64) {
+	at := w.units.Format(units.Position, x)
+	var err error
+	switch w.tool {
+	case toolSupport:
+		k := w.kind
+		err = w.apply(fmt.Sprintf("place a %s support at x = %s", k, at), func(m *fem.Model) error { addSupport(m, k, x); return nil })
+		if err == nil {
+			w.selectItem(canvas.Ref{Kind: canvas.Support, Index: len(w.project.Model.Supports) - 1})
+		}
+	case toolForce:
+		err = w.apply("place a force at x = "+at, func(m *fem.Model) error { addPointForce(m, x); return nil })
+	case toolMoment:
+		err = w.apply("place a moment at x = "+at, func(m *fem.Model) error { addPointMoment(m, x); return nil })
+	}
+	if err == nil && w.tool != toolSupport {
+		w.selectItem(canvas.Ref{Kind: canvas.PointLoad, Index: len(w.project.Model.PointLoads) - 1})
+	}
+}
+
+func (w *Window) addVertex(load int, x float64) {
+	x = w.draw.snapX(w.draw.view.ToScreenX(x), canvas.Ref{Kind: canvas.DistributedLoad, Index: load})
+	var k int
+	err := w.apply(fmt.Sprintf("add a vertex to distributed load %d", load+1), func(m *fem.Model) error {
+		var err error
+		k, err = addLoadVertex(m, load, x)
+		return err
+	})
+	if err == nil {
+		w.selectItem(canvas.Ref{Kind: canvas.LoadVertex, Index: load, Vertex: k})
+	}
+}
+
+// beginDrag decides what a drag starting at p does.
+func (w *Window) beginDrag(p fyne.Position, button desktop.MouseButton) *gesture {
+	g := &gesture{button: button, start: p, before: w.project.Model}
+	if button == desktop.MouseButtonTertiary || w.tool == toolPan {
+		return g
+	}
+	switch w.tool {
+	case toolMember:
+		g.kind = gestureMember
+		if len(w.project.Model.Segments) == 0 {
+			// The member starts where the drag starts.
+			w.draw.view.X0 = -float64(p.X) / w.draw.view.Scale
+		}
+		return g
+	case toolLineLoad:
+		if len(w.project.Model.Segments) > 0 {
+			g.kind = gestureLineLoad
+		}
+		return g
+	}
+	if hit := w.draw.hit(p); hit.Kind != canvas.None && hit.Kind != canvas.Member && hit.Kind != canvas.CheckMark {
+		g.kind, g.target = gestureMove, hit
+		if hit.Kind == canvas.LoadVertex {
+			g.perPixel = w.draw.scene.IntensityPerPixel(hit)
+			if g.perPixel == 0 {
+				g.perPixel = -w.draw.scene.LoadScale
+			}
+		}
+		w.selectItem(hit)
+	}
+	return g
+}
+
+// dragTo applies the drag so far to the model as it was when the drag began,
+// and shows the result live if it is a valid model.
+func (w *Window) dragTo(g *gesture, ev *fyne.DragEvent) {
+	if g.kind == gesturePan {
+		w.draw.view.Pan(ev.Dragged.DX, ev.Dragged.DY)
+		w.draw.Refresh()
+		return
+	}
+	cand := cloneModel(g.before)
+	if err := w.dragModel(&cand, g, ev.Position); err != nil {
+		w.setStatus("%v", err)
+		return
+	}
+	if err := validate(&cand); err != nil {
+		w.setStatus("cannot go there: %v", err)
+		return
+	}
+	w.setModel(cand)
+}
+
+func (w *Window) dragModel(m *fem.Model, g *gesture, p fyne.Position) error {
+	d := w.draw
+	switch g.kind {
+	case gestureMember:
+		s := snapper{grid: w.gridStep(d.metresPerPixel())}
+		return setLength(m, s.snap(d.view.ToModelX(p.X)))
+	case gestureLineLoad:
+		return addLineLoad(m, d.snapX(g.start.X, canvas.Ref{}), d.snapX(p.X, canvas.Ref{}))
+	}
+	r := g.target
+	x := d.snapX(p.X, r)
+	switch r.Kind {
+	case canvas.Support:
+		m.Supports[r.Index].X = x
+	case canvas.PointLoad:
+		m.PointLoads[r.Index].X = x
+	case canvas.MemberEnd:
+		s := snapper{grid: w.gridStep(d.metresPerPixel())}
+		return setLength(m, s.snap(d.view.ToModelX(p.X)))
+	case canvas.Segment:
+		if r.Index == len(m.Segments)-1 {
+			return setLength(m, x)
+		}
+		m.Segments[r.Index].End, m.Segments[r.Index+1].Start = x, x
+	case canvas.DistributedLoad:
+		pts := m.DistributedLoad[r.Index].Points
+		first := g.before.DistributedLoad[r.Index].Points[0].X
+		shift := d.snapX(d.view.ToScreenX(first)+p.X-g.start.X, r) - first
+		for i := range pts {
+			pts[i].X += shift
+		}
+	case canvas.LoadVertex:
+		dx, dy := p.X-g.start.X, p.Y-g.start.Y
+		if g.axis == 0 && math.Hypot(float64(dx), float64(dy)) > 4 {
+			g.axis = 2
+			if math.Abs(float64(dx)) > math.Abs(float64(dy)) {
+				g.axis = 1
+			}
+		}
+		pt := &m.DistributedLoad[r.Index].Points[r.Vertex]
+		switch g.axis {
+		case 1:
+			pt.X = x
+		case 2:
+			pt.Intensity = roundLoad(pt.Intensity + float64(dy)*g.perPixel)
+		}
+	}
+	return nil
+}
+
+// roundLoad keeps dragged intensities to three significant figures: a drag
+// cannot be more precise than that and tidy numbers read better.
+func roundLoad(q float64) float64 {
+	if q == 0 {
+		return 0
+	}
+	step := math.Pow(10, math.Floor(math.Log10(math.Abs(q)))-2)
+	return math.Round(q/step) * step
+}
+
+// endDrag commits a drag as one undoable edit.
+func (w *Window) endDrag(g *gesture) {
+	if g.kind == gesturePan {
+		return
+	}
+	if reflect.DeepEqual(g.before, w.project.Model) {
+		return
+	}
+	name := "drag"
+	switch g.kind {
+	case gestureMember:
+		name = "set the member length to " + w.units.Format(units.Position, w.project.Model.Length())
+		w.draw.fit()
+	case gestureLineLoad:
+		name = "add a distributed load"
+		w.selectItem(canvas.Ref{Kind: canvas.DistributedLoad, Index: len(w.project.Model.DistributedLoad) - 1})
+	case gestureMove:
+		name = "move " + describe(g.target)
+	}
+	w.hist.push(edit{name: name, before: g.before, after: w.project.Model})
+	w.setStatus("%s", name)
+	w.updateTitle()
+}
+
+// canvasNone is the empty selection.
+var canvasNone = canvas.Ref{}
