@@ -1,0 +1,262 @@
+package study
+
+import (
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/integrate/quad"
+	"gonum.org/v1/gonum/mat"
+
+	"stave/fem"
+)
+
+// Iteration is one mesh of an adaptive run.
+type Iteration struct {
+	Elements int
+	// Estimated is the recovery-based relative energy-norm error,
+	// η/√(‖u_h‖² + η²); True is fem.Compare's RelativeEnergy.
+	Estimated, True float64
+	Effectivity     float64 // Estimated / True; NaN when True is at round-off
+}
+
+// Adaptive is the history and result of an adaptive refinement.
+type Adaptive struct {
+	Iterations []Iteration
+	Nodes      []float64 // final mesh, m
+	Reached    bool      // the estimate met the target within maxElements
+}
+
+// refineFraction is the share of the largest element estimate above which
+// an element is halved (the "maximum strategy"; 0.5 is a common choice in
+// the adaptivity literature, common practice).
+const refineFraction = 0.5
+
+// Adapt refines m's mesh until the estimated relative energy-norm error is
+// at most target or the next mesh would exceed maxElements. It starts from
+// two elements per stretch between key points, so that every patch holds
+// enough superconvergent points for the recovery.
+func Adapt(m *fem.Model, target float64, maxElements int) (Adaptive, error) {
+	if !(target > 0) {
+		return Adaptive{}, fmt.Errorf("adaptive refinement: the target error must be positive, got %g", target)
+	}
+	exact, err := fem.SolveExact(m)
+	if err != nil {
+		return Adaptive{}, fmt.Errorf("adaptive refinement needs the exact solution to report the true error: %w", err)
+	}
+	keys, err := keyNodes(m)
+	if err != nil {
+		return Adaptive{}, err
+	}
+	if start := 2 * (len(keys) - 1); maxElements < start {
+		return Adaptive{}, fmt.Errorf("adaptive refinement starts from 2 elements per stretch (%d elements here); allow at least that many, got %d", start, maxElements)
+	}
+	nodes := subdivide(keys, 2)
+	var out Adaptive
+	for {
+		s, err := solveOn(m, nodes)
+		if err != nil {
+			return out, err
+		}
+		indicators, estimated := Estimate(s, keys)
+		it := Iteration{Elements: len(s.Mesh.Elements), Estimated: estimated, True: fem.Compare(s, exact).RelativeEnergy}
+		it.Effectivity = math.NaN()
+		if it.True > roundOff {
+			it.Effectivity = it.Estimated / it.True
+		}
+		out.Iterations = append(out.Iterations, it)
+		out.Nodes = s.Mesh.X
+		if estimated <= target {
+			out.Reached = true
+			return out, nil
+		}
+		refined := bisect(s.Mesh, indicators)
+		if len(refined)-1 > maxElements {
+			return out, nil
+		}
+		nodes = refined
+	}
+}
+
+// bisect halves every element whose indicator is at least refineFraction of
+// the largest.
+func bisect(mesh fem.Mesh, indicators []float64) []float64 {
+	largest := 0.0
+	for _, v := range indicators {
+		largest = math.Max(largest, v)
+	}
+	out := []float64{mesh.X[0]}
+	for i, el := range mesh.Elements {
+		if indicators[i] >= refineFraction*largest {
+			out = append(out, 0.5*(el.Start+el.End))
+		}
+		out = append(out, el.End)
+	}
+	return out
+}
+
+// Estimate returns the recovery-based error indicator η_e of each element
+// of s (in √J) and the estimated relative energy-norm error
+// η/√(‖u_h‖² + η²) with η² = Σ η_e². keys are the key-point nodes: patches
+// never cross them, because the moment and axial force may kink or jump there.
+//
+// Recovery: the bending moment of a Hermite cubic is linear in an element
+// and superconvergent at the two Gauss points (the interpolation error of w”
+// is proportional to 12s² − h², zero at s = ±h/√12); the axial force of a
+// linear bar is superconvergent at the element middle, that of a quadratic
+// bar at the two Gauss points. A polynomial one degree above the element's
+// is fitted by least squares to these values over the element and its
+// neighbours in the same stretch (superconvergent patch recovery,
+// Zienkiewicz & Zhu 1992), and η_e² = ∫ (M* − M_h)²/EI + (N* − N_h)²/EA dx.
+func Estimate(s *fem.Solution, keys []float64) ([]float64, float64) {
+	elements := s.Mesh.Elements
+	stretch := make([]int, len(elements))
+	k := 0
+	for i, el := range elements {
+		for k < len(keys)-2 && 0.5*(el.Start+el.End) > keys[k+1] {
+			k++
+		}
+		stretch[i] = k
+	}
+	barGauss := 1
+	if s.Model.Mesh.BarOrder == fem.QuadraticBar {
+		barGauss = 2
+	}
+	moment := func(f fem.Fields) float64 { return f.BendingMoment }
+	axial := func(f fem.Fields) float64 { return f.AxialForce }
+	indicators := make([]float64, len(elements))
+	var errorSquared, normSquared float64
+	xs, ws := make([]float64, 4), make([]float64, 4)
+	for i, el := range elements {
+		var patch []fem.Element
+		for j := max(i-1, 0); j <= min(i+1, len(elements)-1); j++ {
+			if stretch[j] == stretch[i] {
+				patch = append(patch, elements[j])
+			}
+		}
+		recoveredMoment := fitPatch(s, patch, 2, 2, moment)
+		recoveredAxial := fitPatch(s, patch, barGauss, barGauss, axial)
+		seg := s.Model.Segments[el.Segment]
+		ei := seg.Material.Elastic * seg.Section.SecondMoment
+		ea := seg.Material.Elastic * seg.Section.Area
+		quad.Legendre{}.FixedLocations(xs, ws, el.Start, el.End)
+		var eta2 float64
+		for q, x := range xs {
+			f := s.At(x, fem.Right)
+			dm, dn := recoveredMoment(x)-f.BendingMoment, recoveredAxial(x)-f.AxialForce
+			eta2 += ws[q] * (dm*dm/ei + dn*dn/ea)
+			normSquared += ws[q] * (f.BendingMoment*f.BendingMoment/ei + f.AxialForce*f.AxialForce/ea)
+		}
+		indicators[i] = math.Sqrt(eta2)
+		errorSquared += eta2
+	}
+	if errorSquared+normSquared == 0 {
+		return indicators, 0
+	}
+	return indicators, math.Sqrt(errorSquared / (normSquared + errorSquared))
+}
+
+// fitPatch fits a polynomial of degree `degree` (lowered when the patch has
+// too few points) to value at the `points` Gauss points of each patch
+// element, and returns it as a function of x.
+func fitPatch(s *fem.Solution, patch []fem.Element, points, degree int, value func(fem.Fields) float64) func(float64) float64 {
+	gauss, weights := make([]float64, points), make([]float64, points)
+	var xs, ys []float64
+	for _, el := range patch {
+		quad.Legendre{}.FixedLocations(gauss, weights, el.Start, el.End)
+		for _, x := range gauss {
+			xs, ys = append(xs, x), append(ys, value(s.At(x, fem.Right)))
+		}
+	}
+	degree = min(degree, len(xs)-1)
+	// Centre and scale x so the small least-squares system is well conditioned.
+	centre := 0.5 * (patch[0].Start + patch[len(patch)-1].End)
+	half := 0.5 * (patch[len(patch)-1].End - patch[0].Start)
+	a := mat.NewDense(len(xs), degree+1, nil)
+	for i, x := range xs {
+		t := (x - centre) / half
+		for j, p := 0, 1.0; j <= degree; j, p = j+1, p*t {
+			a.Set(i, j, p)
+		}
+	}
+	var c mat.VecDense
+	if err := c.SolveVec(a, mat.NewVecDense(len(ys), ys)); err != nil {
+		// The points are distinct Gauss points, so the system has full rank;
+		// fall back to the mean should round-off say otherwise.
+		mean := 0.0
+		for _, y := range ys {
+			mean += y / float64(len(ys))
+		}
+		return func(float64) float64 { return mean }
+	}
+	return func(x float64) float64 {
+		t := (x - centre) / half
+		v := 0.0
+		for j := degree; j >= 0; j-- {
+			v = v*t + c.AtVec(j)
+		}
+		return v
+	}
+}
+
+// Versus compares adaptive refinement with uniform refinement at equal true
+// error.
+type Versus struct {
+	Adaptive        Adaptive
+	AdaptiveTrue    float64 // true relative energy error of the final adaptive mesh
+	UniformElements int     // fewest uniform elements (BuildMesh with Mesh.Elements) reaching AdaptiveTrue
+	UniformTrue     float64 // its true relative energy error
+}
+
+// AgainstUniform runs Adapt and then finds the fewest elements a uniform
+// mesh (every stretch divided in proportion to its length, as BuildMesh
+// does) needs to reach the same true error, searching up to maxUniform
+// elements.
+func AgainstUniform(m *fem.Model, target float64, maxElements, maxUniform int) (Versus, error) {
+	a, err := Adapt(m, target, maxElements)
+	if err != nil {
+		return Versus{}, err
+	}
+	v := Versus{Adaptive: a, AdaptiveTrue: a.Iterations[len(a.Iterations)-1].True}
+	exact, err := fem.SolveExact(m)
+	if err != nil {
+		return v, err
+	}
+	uniformError := func(n int) (int, float64, error) {
+		um := *m
+		um.Mesh = fem.MeshSettings{Elements: n, BarOrder: m.Mesh.BarOrder}
+		s, err := fem.Solve(&um)
+		if err != nil {
+			return 0, 0, err
+		}
+		return len(s.Mesh.Elements), fem.Compare(s, exact).RelativeEnergy, nil
+	}
+	// Double to bracket the answer, then bisect on the requested count.
+	low, high := 0, 1
+	for {
+		count, e, err := uniformError(high)
+		if err != nil {
+			return v, err
+		}
+		if e <= v.AdaptiveTrue {
+			v.UniformElements, v.UniformTrue = count, e
+			break
+		}
+		if count > maxUniform {
+			return v, fmt.Errorf("uniform refinement did not reach the adaptive error %.3g within %d elements (%.3g at %d)", v.AdaptiveTrue, maxUniform, e, count)
+		}
+		low, high = high, 2*high
+	}
+	for high-low > 1 {
+		mid := (low + high) / 2
+		count, e, err := uniformError(mid)
+		if err != nil {
+			return v, err
+		}
+		if e <= v.AdaptiveTrue {
+			high, v.UniformElements, v.UniformTrue = mid, count, e
+		} else {
+			low = mid
+		}
+	}
+	return v, nil
+}

@@ -1,0 +1,157 @@
+// Package study measures how the finite element answer approaches the exact
+// one as the mesh is refined, and refines the mesh adaptively where a
+// recovery-based estimate of the error is largest.
+//
+// Convergence solves a model on meshes with 1, 2, 4, ... elements in every
+// stretch between key points and tabulates the error against the exact
+// solution (fem.SolveExact, fem.Compare) with the observed rates. For a
+// smooth exact solution, theory predicts an energy-norm error O(h^(p+1−m))
+// and a displacement L2 error O(h^(p+1)), where p is the polynomial degree
+// of the element and m the order of the derivative in the strain energy (1
+// for bars, 2 for beams) (Strang & Fix, An Analysis of the Finite Element
+// Method, ch. 1 and 3; Hughes, The Finite Element Method, ch. 1; from
+// memory): linear bars 1 and 2, quadratic bars 2 and 3, Hermite cubic beams
+// 2 and 4. The stress error follows the energy rate.
+//
+// Adapt estimates the error of each element in the manner of Zienkiewicz &
+// Zhu (1987, 1992): a smoothed bending moment and axial force are recovered
+// from the superconvergent points of the elements of a patch, and the energy
+// of the difference between recovered and finite element actions measures
+// the error. Elements with the largest estimates are halved until the
+// estimate meets a target.
+package study
+
+import (
+	"fmt"
+	"math"
+
+	"stave/fem"
+)
+
+// Row is one mesh of a convergence table.
+type Row struct {
+	PerStretch int // elements in every stretch between key points
+	Elements   int
+	// Errors against the exact solution, relative (see fem.ErrorNorms).
+	MaxStress, L2, Energy float64
+	// Observed rates against the previous row, log(e₀/e₁)/log(n₁/n₀);
+	// NaN in the first row or where an error is at round-off.
+	StressRate, L2Rate, EnergyRate float64
+}
+
+// Table is a convergence study.
+type Table struct {
+	Rows []Row
+	// Least-squares slopes of log(error) against log(1/elements) over the rows
+	// whose error is above round-off; NaN with fewer than two such rows.
+	StressRate, L2Rate, EnergyRate float64
+}
+
+// roundOff is the relative error below which a value is taken as exact:
+// rates computed from such values measure noise.
+const roundOff = 1e-10
+
+// Convergence solves m with 1, 2, 4, ... up to maxPerStretch elements in
+// every stretch between key points and compares each with the exact solution.
+func Convergence(m *fem.Model, maxPerStretch int) (Table, error) {
+	if maxPerStretch < 1 {
+		return Table{}, fmt.Errorf("convergence study: the finest mesh must have at least 1 element per stretch, got %d", maxPerStretch)
+	}
+	exact, err := fem.SolveExact(m)
+	if err != nil {
+		return Table{}, fmt.Errorf("convergence study needs the exact solution: %w", err)
+	}
+	keys, err := keyNodes(m)
+	if err != nil {
+		return Table{}, err
+	}
+	var t Table
+	for k := 1; k <= maxPerStretch; k *= 2 {
+		s, err := solveOn(m, subdivide(keys, k))
+		if err != nil {
+			return Table{}, fmt.Errorf("convergence study, %d elements per stretch: %w", k, err)
+		}
+		norms := fem.Compare(s, exact)
+		row := Row{PerStretch: k, Elements: len(s.Mesh.Elements),
+			MaxStress: norms.MaxStressRelative, L2: norms.RelativeL2, Energy: norms.RelativeEnergy}
+		row.StressRate, row.L2Rate, row.EnergyRate = math.NaN(), math.NaN(), math.NaN()
+		if n := len(t.Rows); n > 0 {
+			prev := t.Rows[n-1]
+			ratio := float64(row.Elements) / float64(prev.Elements)
+			row.StressRate = rate(prev.MaxStress, row.MaxStress, ratio)
+			row.L2Rate = rate(prev.L2, row.L2, ratio)
+			row.EnergyRate = rate(prev.Energy, row.Energy, ratio)
+		}
+		t.Rows = append(t.Rows, row)
+	}
+	pick := func(f func(Row) float64) float64 { return fittedRate(t.Rows, f) }
+	t.StressRate = pick(func(r Row) float64 { return r.MaxStress })
+	t.L2Rate = pick(func(r Row) float64 { return r.L2 })
+	t.EnergyRate = pick(func(r Row) float64 { return r.Energy })
+	return t, nil
+}
+
+func rate(before, after, refinement float64) float64 {
+	if before <= roundOff || after <= roundOff {
+		return math.NaN()
+	}
+	return math.Log(before/after) / math.Log(refinement)
+}
+
+// fittedRate is the least-squares slope of −log(error) against log(elements).
+func fittedRate(rows []Row, value func(Row) float64) float64 {
+	var xs, ys []float64
+	for _, r := range rows {
+		if v := value(r); v > roundOff {
+			xs, ys = append(xs, math.Log(float64(r.Elements))), append(ys, -math.Log(v))
+		}
+	}
+	if len(xs) < 2 {
+		return math.NaN()
+	}
+	var mx, my float64
+	for i := range xs {
+		mx, my = mx+xs[i], my+ys[i]
+	}
+	mx, my = mx/float64(len(xs)), my/float64(len(xs))
+	var sxy, sxx float64
+	for i := range xs {
+		sxy += (xs[i] - mx) * (ys[i] - my)
+		sxx += (xs[i] - mx) * (xs[i] - mx)
+	}
+	return sxy / sxx
+}
+
+// keyNodes returns the nodes every mesh of m must hold: one element per
+// stretch between key points.
+func keyNodes(m *fem.Model) ([]float64, error) {
+	coarse := *m
+	coarse.Mesh = fem.MeshSettings{BarOrder: m.Mesh.BarOrder}
+	mesh, err := fem.BuildMesh(&coarse)
+	if err != nil {
+		return nil, err
+	}
+	return mesh.X, nil
+}
+
+// subdivide splits every interval of nodes into k equal parts.
+func subdivide(nodes []float64, k int) []float64 {
+	out := make([]float64, 0, (len(nodes)-1)*k+1)
+	out = append(out, nodes[0])
+	for i := 1; i < len(nodes); i++ {
+		a, b := nodes[i-1], nodes[i]
+		for j := 1; j < k; j++ {
+			out = append(out, a+(b-a)*float64(j)/float64(k))
+		}
+		out = append(out, b)
+	}
+	return out
+}
+
+func solveOn(m *fem.Model, nodes []float64) (*fem.Solution, error) {
+	mesh, err := fem.MeshFromNodes(m, nodes)
+	if err != nil {
+		return nil, err
+	}
+	return fem.SolveOnMesh(m, mesh)
+}

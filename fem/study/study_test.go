@@ -1,0 +1,143 @@
+package study
+
+import (
+	"math"
+	"testing"
+
+	"stave/fem"
+)
+
+func member(length float64, supports []fem.Support) fem.Model {
+	return fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: length,
+			Section:  fem.Section{Area: 0.02, SecondMoment: 6.667e-5, FibreDistance: 0.1},
+			Material: fem.Material{Name: "steel", Elastic: 200e9, Density: 7850, ThermalExpansion: 12e-6}}},
+		Supports: supports,
+	}
+}
+
+func triangular(d fem.Dof, length, peak float64) fem.DistributedLoad {
+	return fem.DistributedLoad{Direction: d, Points: []fem.LoadPoint{{X: 0}, {X: length, Intensity: peak}}}
+}
+
+// smoothModels have smooth exact solutions: a polynomial of higher degree
+// than the element reproduces, so the errors decay at the theoretical rate.
+func smoothModels() []struct {
+	name               string
+	model              fem.Model
+	stress, l2, energy float64 // theoretical rates
+} {
+	beam := member(4, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}})
+	beam.DistributedLoad = []fem.DistributedLoad{triangular(fem.Transverse, 4, -10e3)}
+	rod := member(4, []fem.Support{{X: 0, Kind: fem.Fixed}})
+	rod.Gravity = [2]float64{fem.StandardGravity, 0}
+	quadratic := member(4, []fem.Support{{X: 0, Kind: fem.Fixed}})
+	quadratic.DistributedLoad = []fem.DistributedLoad{triangular(fem.Axial, 4, 50e3)}
+	quadratic.Mesh.BarOrder = fem.QuadraticBar
+	return []struct {
+		name               string
+		model              fem.Model
+		stress, l2, energy float64
+	}{
+		// Hermite cubic beam, w quintic: energy and stress O(h²), L2 O(h⁴).
+		{"beam, triangular load", beam, 2, 4, 2},
+		// Linear bar, u quadratic: energy and stress O(h), L2 O(h²).
+		{"linear bar, self-weight", rod, 1, 2, 1},
+		// Quadratic bar, u cubic: energy and stress O(h²), L2 O(h³).
+		{"quadratic bar, triangular load", quadratic, 2, 3, 2},
+	}
+}
+
+// Rates from FE theory: energy-norm error O(h^(p+1−m)), L2 error O(h^(p+1))
+// (Strang & Fix, ch. 1 and 3; Hughes, The Finite Element Method, ch. 1;
+// from memory).
+func TestConvergenceRates(t *testing.T) {
+	for _, c := range smoothModels() {
+		table, err := Convergence(&c.model, 32)
+		if err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		for _, r := range table.Rows {
+			t.Logf("%s: %3d elements  stress %.3e (rate %.2f)  L2 %.3e (rate %.2f)  energy %.3e (rate %.2f)",
+				c.name, r.Elements, r.MaxStress, r.StressRate, r.L2, r.L2Rate, r.Energy, r.EnergyRate)
+		}
+		t.Logf("%s: least-squares rates: stress %.3f, L2 %.3f, energy %.3f", c.name, table.StressRate, table.L2Rate, table.EnergyRate)
+		if len(table.Rows) != 6 {
+			t.Errorf("%s: %d rows for 1..32 per stretch, want 6", c.name, len(table.Rows))
+		}
+		for _, q := range []struct {
+			what        string
+			got, theory float64
+		}{{"stress", table.StressRate, c.stress}, {"L2", table.L2Rate, c.l2}, {"energy", table.EnergyRate, c.energy}} {
+			if math.IsNaN(q.got) || math.Abs(q.got-q.theory) > 0.15 {
+				t.Errorf("%s: %s rate %.3f, theory %g", c.name, q.what, q.got, q.theory)
+			}
+		}
+	}
+}
+
+// On smooth problems the patch recovery is superconvergent, so the
+// estimate tracks the true error: effectivity index near 1 (Zienkiewicz &
+// Zhu 1992 report values approaching 1 under refinement; from memory).
+func TestEffectivityOnSmoothProblems(t *testing.T) {
+	for _, c := range smoothModels() {
+		a, err := Adapt(&c.model, 1e-3, 2000)
+		if err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		if !a.Reached {
+			t.Errorf("%s: target not reached in %d iterations", c.name, len(a.Iterations))
+		}
+		for _, it := range a.Iterations {
+			t.Logf("%s: %4d elements  estimated %.4e  true %.4e  effectivity %.4f", c.name, it.Elements, it.Estimated, it.True, it.Effectivity)
+			if !(it.Effectivity >= 0.7 && it.Effectivity <= 1.3) {
+				t.Errorf("%s, %d elements: effectivity %.3f outside 0.7–1.3", c.name, it.Elements, it.Effectivity)
+			}
+		}
+	}
+}
+
+// A member with point loads, a change of section and a partial load: the
+// error lives only where the distributed load is (elsewhere the Hermite
+// solution is exact), so adaptive refinement concentrates elements there.
+func TestAdaptiveBeatsUniform(t *testing.T) {
+	m := member(10, []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 6, Kind: fem.Roller}, {X: 10, Kind: fem.Roller}})
+	thin := m.Segments[0]
+	m.Segments[0].End, thin.Start = 4, 4
+	thin.Section.SecondMoment /= 3
+	m.Segments = append(m.Segments, thin)
+	m.PointLoads = []fem.PointLoad{{X: 2.5, Transverse: -20e3}, {X: 8, Transverse: -15e3, Axial: 10e3}}
+	m.DistributedLoad = []fem.DistributedLoad{{Direction: fem.Transverse,
+		Points: []fem.LoadPoint{{X: 6.5, Intensity: -5e3}, {X: 7.5, Intensity: -25e3}, {X: 9, Intensity: -8e3}}}}
+	const target = 2e-4
+	v, err := AgainstUniform(&m, target, 5000, 200000)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, it := range v.Adaptive.Iterations {
+		t.Logf("adaptive: %4d elements  estimated %.4e  true %.4e  effectivity %.3f", it.Elements, it.Estimated, it.True, it.Effectivity)
+	}
+	adaptive := len(v.Adaptive.Nodes) - 1
+	t.Logf("adaptive: %d elements reach true error %.4e; uniform needs %d elements (true error %.4e)",
+		adaptive, v.AdaptiveTrue, v.UniformElements, v.UniformTrue)
+	if !v.Adaptive.Reached || !(adaptive < v.UniformElements) {
+		t.Errorf("adaptive %d elements (reached %v) should be fewer than uniform %d", adaptive, v.Adaptive.Reached, v.UniformElements)
+	}
+	if v.UniformTrue > v.AdaptiveTrue {
+		t.Errorf("uniform error %.3e above the adaptive %.3e it should match", v.UniformTrue, v.AdaptiveTrue)
+	}
+}
+
+func TestInvalidRequests(t *testing.T) {
+	m := member(4, []fem.Support{{X: 0, Kind: fem.Fixed}})
+	m.PointLoads = []fem.PointLoad{{X: 4, Transverse: -1e3}}
+	if _, err := Convergence(&m, 0); err == nil {
+		t.Error("Convergence with 0 elements per stretch accepted")
+	}
+	if _, err := Adapt(&m, 0, 100); err == nil {
+		t.Error("Adapt with target 0 accepted")
+	}
+	if _, err := Adapt(&m, 0.01, 1); err == nil {
+		t.Error("Adapt with fewer elements allowed than it starts from accepted")
+	}
+}
