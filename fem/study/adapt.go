@@ -39,11 +39,7 @@ func Adapt(m *fem.Model, target float64, maxElements int) (Adaptive, error) {
 	if !(target > 0) {
 		return Adaptive{}, fmt.Errorf("adaptive refinement: the target error must be positive, got %g", target)
 	}
-	exact, err := fem.SolveExact(m)
-	if err != nil {
-		return Adaptive{}, fmt.Errorf("adaptive refinement needs the exact solution to report the true error: %w", err)
-	}
-	keys, err := keyNodes(m)
+	exact, keys, err := prepare(m, "adaptive refinement")
 	if err != nil {
 		return Adaptive{}, err
 	}

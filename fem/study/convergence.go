@@ -57,11 +57,7 @@ func Convergence(m *fem.Model, maxPerStretch int) (Table, error) {
 	if maxPerStretch < 1 {
 		return Table{}, fmt.Errorf("convergence study: the finest mesh must have at least 1 element per stretch, got %d", maxPerStretch)
 	}
-	exact, err := fem.SolveExact(m)
-	if err != nil {
-		return Table{}, fmt.Errorf("convergence study needs the exact solution: %w", err)
-	}
-	keys, err := keyNodes(m)
+	exact, keys, err := prepare(m, "convergence study")
 	if err != nil {
 		return Table{}, err
 	}
@@ -122,16 +118,21 @@ func fittedRate(rows []Row, value func(Row) float64) float64 {
 	return sxy / sxx
 }
 
-// keyNodes returns the nodes every mesh of m must hold: one element per
-// stretch between key points.
-func keyNodes(m *fem.Model) ([]float64, error) {
+// prepare solves m exactly and returns the nodes every mesh of m must
+// hold (one element per stretch between key points); what names the study
+// in errors.
+func prepare(m *fem.Model, what string) (*fem.Exact, []float64, error) {
+	exact, err := fem.SolveExact(m)
+	if err != nil {
+		return nil, nil, fmt.Errorf("%s needs the exact solution: %w", what, err)
+	}
 	coarse := *m
 	coarse.Mesh = fem.MeshSettings{BarOrder: m.Mesh.BarOrder}
 	mesh, err := fem.BuildMesh(&coarse)
 	if err != nil {
-		return nil, err
+		return nil, nil, fmt.Errorf("%s: %w", what, err)
 	}
-	return mesh.X, nil
+	return exact, mesh.X, nil
 }
 
 // subdivide splits every interval of nodes into k equal parts.
