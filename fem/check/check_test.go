@@ -67,6 +67,9 @@ func TestHandComputedUtilisation(t *testing.T) {
 	m.PointLoads = []fem.PointLoad{{X: 2, Transverse: -20e3}}
 	s, e := solveBoth(t, &m)
 	results := Run(&m, s, e, Options{SafetyFactor: 1.5, SpanRatio: 360})
+	for _, r := range results {
+		t.Logf("%-40s %-5v %s", r.Name, r.Status, r.Message)
+	}
 
 	stress := find(t, results, "Stress, segment 1")
 	if !near(stress.Value, 30e6, 1e-9) || !near(stress.Limit, 200e6/1.5, 1e-12) || !near(stress.X, 2, 1e-9) || stress.Status != Pass {
