@@ -191,6 +191,8 @@ func (b *builder) label(s string, size float32, c color.NRGBA, bold, force bool,
 		}
 		if free || (force && i == len(cands)-1) {
 			b.occupied = append(b.occupied, r)
+			// A light backing keeps a label readable over hatching and arrows.
+			b.rectangle(r.x0-1, r.y0+1, r.x1+1, r.y1-1, rgba(0xff, 0xff, 0xff, 0xc8))
 			return b.text(s, cand.x, cand.y, size, cand.ax, cand.ay, c, bold), true
 		}
 	}

@@ -1,0 +1,84 @@
+package canvas
+
+import (
+	"encoding/csv"
+	"fmt"
+	"io"
+	"strconv"
+
+	"stave/fem"
+	"stave/fem/units"
+)
+
+// csvColumns are the quantities of a results table, in order.
+var csvColumns = []struct {
+	name string
+	unit units.Quantity
+	get  func(fem.Fields) float64
+}{
+	{"u", units.Deflection, func(f fem.Fields) float64 { return f.AxialDisplacement }},
+	{"w", units.Deflection, func(f fem.Fields) float64 { return f.Deflection }},
+	{"theta", units.Rotation, func(f fem.Fields) float64 { return f.Rotation }},
+	{"N", units.Force, func(f fem.Fields) float64 { return f.AxialForce }},
+	{"V", units.Force, func(f fem.Fields) float64 { return f.ShearForce }},
+	{"M", units.Moment, func(f fem.Fields) float64 { return f.BendingMoment }},
+	{"sigma_axial", units.Stress, func(f fem.Fields) float64 { return f.AxialStress }},
+	{"sigma_bending", units.Stress, func(f fem.Fields) float64 { return f.BendingStress }},
+	{"sigma_combined", units.Stress, func(f fem.Fields) float64 { return f.CombinedStress }},
+}
+
+// WriteCSV writes x and every result quantity, finite element and (when e is
+// not nil) exact, at perElement+1 points in each element, both ends included,
+// in the display units of u named in the header. An element's start is read
+// from the right and its end from the left, so jumps show as two rows at one x.
+func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perElement int) error {
+	if s == nil {
+		return fmt.Errorf("canvas: there are no results to write: solve the model first")
+	}
+	if perElement < 1 {
+		return fmt.Errorf("canvas: %d points per element is too few: use at least 1", perElement)
+	}
+	if u.Name == "" {
+		u = units.SI
+	}
+	cw := csv.NewWriter(w)
+	header := []string{fmt.Sprintf("x [%s]", u.Unit(units.Position).Symbol)}
+	for _, c := range csvColumns {
+		sym := u.Unit(c.unit).Symbol
+		header = append(header, fmt.Sprintf("%s FE [%s]", c.name, sym))
+		if e != nil {
+			header = append(header, fmt.Sprintf("%s exact [%s]", c.name, sym))
+		}
+	}
+	if err := cw.Write(header); err != nil {
+		return err
+	}
+	num := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
+	row := make([]string, 0, len(header))
+	for _, el := range s.Mesh.Elements {
+		for j := 0; j <= perElement; j++ {
+			x := el.Start + (el.End-el.Start)*float64(j)/float64(perElement)
+			side := fem.Right
+			if j == perElement {
+				side = fem.Left
+			}
+			fe := s.At(x, side)
+			var ex fem.Fields
+			if e != nil {
+				ex = e.At(x, side)
+			}
+			row = append(row[:0], num(u.ToDisplay(units.Position, x)))
+			for _, c := range csvColumns {
+				row = append(row, num(u.ToDisplay(c.unit, c.get(fe))))
+				if e != nil {
+					row = append(row, num(u.ToDisplay(c.unit, c.get(ex))))
+				}
+			}
+			if err := cw.Write(row); err != nil {
+				return err
+			}
+		}
+	}
+	cw.Flush()
+	return cw.Error()
+}

@@ -1,0 +1,294 @@
+package canvas
+
+import (
+	"fmt"
+	"image/color"
+	"io"
+	"strings"
+
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/vgimg"
+	"gonum.org/v1/plot/vg/vgpdf"
+
+	"stave/fem"
+	"stave/fem/units"
+)
+
+// Caution is printed on every calculation sheet.
+const Caution = "Results are an aid for checking only. A qualified engineer must review them; local codes and licensed practice govern."
+
+// SheetNotes fill the title block of a calculation sheet.
+type SheetNotes struct {
+	Project, Mark, Engineer, Date, Version string
+}
+
+// SheetInput is what a calculation sheet shows. Input carries the model,
+// results and unit system; Panels picks the diagrams.
+type SheetInput struct {
+	Input  Input
+	Notes  SheetNotes
+	Panels ExportPanels
+	// Checks are the failed or warned checks, one sentence each.
+	Checks []string
+}
+
+// A4 portrait in points; the sheet is laid out as a scene of this size.
+const (
+	a4Width    = 595.28
+	a4Height   = 841.89
+	sheetEdge  = 28
+	sheetDPI   = 150 // PNG sheets
+	sheetSmall = 7.5
+	sheetText  = 8.5
+)
+
+// WriteSheet writes a one-page A4 calculation sheet as "pdf" or "png".
+func WriteSheet(w io.Writer, format string, in SheetInput) error {
+	if in.Input.Model == nil {
+		return fmt.Errorf("canvas: the calculation sheet needs a model")
+	}
+	page := buildSheet(in)
+	switch format {
+	case "pdf":
+		c := vgpdf.New(vg.Length(page.Width), vg.Length(page.Height))
+		paint(c, page, 1, forPDF)
+		_, err := c.WriteTo(w)
+		return err
+	case "png":
+		k := float64(sheetDPI) / 72
+		c := vgimg.NewWith(vgimg.UseWH(vg.Length(float64(page.Width)*k), vg.Length(float64(page.Height)*k)), vgimg.UseDPI(72))
+		paint(c, page, k, allText)
+		_, err := vgimg.PngCanvas{Canvas: c}.WriteTo(w)
+		return err
+	}
+	return fmt.Errorf("canvas: cannot write a calculation sheet as %q: use \"pdf\" or \"png\"", format)
+}
+
+// sheet lays out text rows on the page scene.
+type sheet struct {
+	b *builder
+	y float32
+}
+
+func (sh *sheet) row(cols []string, xs []float32, size float32, c color.NRGBA, bold bool) {
+	for i, s := range cols {
+		sh.b.text(s, xs[i], sh.y, size, 0, 0, c, bold)
+	}
+	sh.y += textHeight(size) + 1
+}
+
+func (sh *sheet) heading(s string) {
+	sh.y += 5
+	sh.b.text(s, sheetEdge, sh.y, 10, 0, 0, inkColour, true)
+	sh.y += textHeight(10) + 1
+	sh.b.line(faintColour, 0.5, Point{sheetEdge, sh.y}, Point{a4Width - sheetEdge, sh.y})
+	sh.y += 2
+}
+
+// buildSheet lays out the whole page as one scene, so the PDF and PNG
+// sheets are drawn by the same code as every other output.
+func buildSheet(in SheetInput) *Scene {
+	u := in.Input.Units
+	if u.Name == "" {
+		u = units.SI
+	}
+	pageView := View{Width: a4Width, Height: a4Height, Scale: 1}
+	b := &builder{in: Input{Model: in.Input.Model}, v: pageView, u: u, s: &Scene{Width: a4Width, Height: a4Height}}
+	sh := &sheet{b: b, y: sheetEdge}
+	right := float32(a4Width - sheetEdge)
+
+	// Title block.
+	b.polygon(color.NRGBA{}, inkColour, 1, Point{sheetEdge, sh.y}, Point{right, sh.y}, Point{right, sh.y + 58}, Point{sheetEdge, sh.y + 58})
+	b.text("Member check: calculation sheet", sheetEdge+8, sh.y+7, 13, 0, 0, inkColour, true)
+	n := in.Notes
+	left := []string{"Project: " + n.Project, "Member: " + n.Mark, "Engineer: " + n.Engineer}
+	rightCol := []string{"Date: " + n.Date, "Stave " + n.Version, "Units: " + u.Name}
+	for i := range left {
+		b.text(left[i], sheetEdge+8, sh.y+26+float32(i)*10, sheetSmall+0.5, 0, 0, inkColour, false)
+		b.text(rightCol[i], 380, sh.y+26+float32(i)*10, sheetSmall+0.5, 0, 0, inkColour, false)
+	}
+	sh.y += 62
+
+	sh.modelTable(in.Input.Model, u)
+
+	// Diagrams: the same Build as the screen, at a fixed size, drawn at
+	// diagramScale so its labels sit close to the size of the table text.
+	sh.heading("Diagrams")
+	di := in.Input
+	di.Layers = in.Panels.layers(di.Layers)
+	di.Selected, di.Hovering, di.Highlight, di.Cache = Ref{}, false, [2]float64{}, nil
+	room := float32(a4Height-sheetEdge-3*textHeight(sheetText)) - sh.y - sh.reserve(in)
+	dh := min(float32(300+120*in.Panels.count())*diagramScale, room)
+	dw := float32(right - sheetEdge)
+	v := NewView(dw/diagramScale, dh/diagramScale)
+	v.Fit(in.Input.Model)
+	appendScene(b.s, Build(di, v), sheetEdge, sh.y, diagramScale)
+	b.polygon(color.NRGBA{}, faintColour, 0.5, Point{sheetEdge, sh.y}, Point{right, sh.y}, Point{right, sh.y + dh}, Point{sheetEdge, sh.y + dh})
+	sh.y += dh + 4
+
+	if in.Input.Solution != nil {
+		sh.resultsTable(fem.Summarize(in.Input.Solution, in.Input.Exact), u)
+	} else if in.Input.Problem != "" {
+		sh.heading("Results")
+		for _, ln := range wrap(in.Input.Problem, sheetText, true, right-sheetEdge) {
+			sh.row([]string{ln}, []float32{sheetEdge}, sheetText, problemColour, true)
+		}
+	}
+	if len(in.Checks) > 0 {
+		sh.heading("Failed or warned checks")
+		for _, c := range in.Checks {
+			for _, ln := range wrap("• "+c, sheetText, false, right-sheetEdge) {
+				sh.row([]string{ln}, []float32{sheetEdge}, sheetText, problemColour, false)
+			}
+		}
+	}
+	// The caution sits at the foot of the page whatever the content above.
+	foot := float32(a4Height - sheetEdge - 2*textHeight(sheetText))
+	b.line(inkColour, 0.75, Point{sheetEdge, foot - 4}, Point{right, foot - 4})
+	for i, ln := range wrap(Caution, sheetText, true, right-sheetEdge) {
+		b.text(ln, sheetEdge, foot+float32(i)*textHeight(sheetText), sheetText, 0, 0, inkColour, true)
+	}
+	return b.s
+}
+
+// diagramScale shrinks the diagrams onto the sheet.
+const diagramScale = 0.62
+
+// appendScene copies the items of src into dst scaled by k and shifted by (dx, dy).
+func appendScene(dst, src *Scene, dx, dy, k float32) {
+	move := func(p Point) Point { return Point{p.X*k + dx, p.Y*k + dy} }
+	for _, it := range src.Items {
+		pts := make([]Point, len(it.Points))
+		for i, p := range it.Points {
+			pts[i] = move(p)
+		}
+		it.Points = pts
+		it.Center, it.At = move(it.Center), move(it.At)
+		it.Radius, it.StrokeWidth, it.Size, it.Width = it.Radius*k, it.StrokeWidth*k, it.Size*k, it.Width*k
+		dst.Items = append(dst.Items, it)
+	}
+}
+
+// reserve is the height the results and checks below the diagrams take.
+func (sh *sheet) reserve(in SheetInput) float32 {
+	line := textHeight(sheetSmall) + 1
+	h := float32(0)
+	if s := in.Input.Solution; s != nil {
+		h += 2*line*float32(4+len(s.Reactions)+len(s.Warnings)) + 12*line + 30
+	} else {
+		h += 3*line + 25
+	}
+	if len(in.Checks) > 0 {
+		h += 25
+		for _, c := range in.Checks {
+			h += line * float32(len(wrap("• "+c, sheetText, false, a4Width-2*sheetEdge)))
+		}
+	}
+	return h
+}
+
+// sheetRows caps each input table so the page holds.
+const sheetRows = 6
+
+func (sh *sheet) modelTable(m *fem.Model, u units.System) {
+	sh.heading("Model")
+	xs := []float32{sheetEdge, sheetEdge + 70}
+	f := u.Format
+	var rows [][2]string
+	for i, s := range m.Segments {
+		rows = append(rows, [2]string{fmt.Sprintf("segment %d", i+1), fmt.Sprintf("%s to %s; A %s, I %s, c %s; E %s %s",
+			f(units.Position, s.Start), f(units.Position, s.End), f(units.Area, s.Section.Area),
+			f(units.SecondMoment, s.Section.SecondMoment), f(units.Dimension, s.Section.FibreDistance),
+			f(units.Modulus, s.Material.Elastic), s.Material.Name)})
+	}
+	for i, s := range m.Supports {
+		d := fmt.Sprintf("%s at %s", s.Kind, f(units.Position, s.X))
+		if s.Kind == fem.Spring {
+			d += fmt.Sprintf("; k %s, %s, %s", f(units.TranslationalStiffness, s.Stiffness[0]),
+				f(units.TranslationalStiffness, s.Stiffness[1]), f(units.RotationalStiffness, s.Stiffness[2]))
+		}
+		rows = append(rows, [2]string{fmt.Sprintf("support %d", i+1), d})
+	}
+	for i, p := range m.PointLoads {
+		var parts []string
+		if p.Axial != 0 {
+			parts = append(parts, "axial "+f(units.Force, p.Axial))
+		}
+		if p.Transverse != 0 {
+			parts = append(parts, "transverse "+f(units.Force, p.Transverse))
+		}
+		if p.Moment != 0 {
+			parts = append(parts, "moment "+f(units.Moment, p.Moment))
+		}
+		rows = append(rows, [2]string{fmt.Sprintf("point load %d", i+1), "at " + f(units.Position, p.X) + ": " + strings.Join(parts, ", ")})
+	}
+	for i, d := range m.DistributedLoad {
+		var parts []string
+		for _, p := range d.Points {
+			parts = append(parts, f(units.LineLoad, p.Intensity)+" at "+f(units.Position, p.X))
+		}
+		rows = append(rows, [2]string{fmt.Sprintf("line load %d", i+1), d.Direction.String() + ": " + strings.Join(parts, "; ")})
+	}
+	if m.Gravity != [2]float64{} {
+		rows = append(rows, [2]string{"self-weight", fmt.Sprintf("g = (%s, %s)", f(units.Acceleration, m.Gravity[0]), f(units.Acceleration, m.Gravity[1]))})
+	}
+	if m.TemperatureChange != 0 {
+		rows = append(rows, [2]string{"temperature", f(units.TemperatureChange, m.TemperatureChange)})
+	}
+	limit := 3 * sheetRows
+	for i, r := range rows {
+		if i == limit {
+			sh.row([]string{"", fmt.Sprintf("… and %d more (see the model file)", len(rows)-limit)}, xs, sheetSmall, faintColour, false)
+			break
+		}
+		sh.row(r[:], xs, sheetSmall, inkColour, false)
+	}
+}
+
+// summaryUnits maps fem.Summary quantity names to display quantities.
+var summaryUnits = map[string]units.Quantity{
+	"AxialDisplacement": units.Deflection, "Deflection": units.Deflection, "Rotation": units.Rotation,
+	"AxialForce": units.Force, "ShearForce": units.Force, "BendingMoment": units.Moment,
+	"AxialStress": units.Stress, "BendingStress": units.Stress, "CombinedStress": units.Stress,
+}
+
+// summaryNames are the trade's words for the fem.Summary quantity names.
+var summaryNames = map[string]string{
+	"AxialDisplacement": "axial displacement u", "Deflection": "deflection w", "Rotation": "rotation",
+	"AxialForce": "axial force N", "ShearForce": "shear force V", "BendingMoment": "bending moment M",
+	"AxialStress": "axial stress N/A", "BendingStress": "bending stress Mc/I", "CombinedStress": "combined stress",
+}
+
+func (sh *sheet) resultsTable(sum fem.Summary, u units.System) {
+	f := u.Format
+	sh.heading("Results")
+	xs := []float32{sheetEdge, sheetEdge + 90, sheetEdge + 180, sheetEdge + 300, sheetEdge + 400}
+	sh.row([]string{"reaction", "at", "axial", "transverse", "moment"}, xs, sheetSmall, faintColour, true)
+	for _, r := range sum.Reactions {
+		sh.row([]string{fmt.Sprintf("support %d (%s)", r.Support, r.Kind), f(units.Position, r.X),
+			f(units.Force, r.Axial), f(units.Force, r.Transverse), f(units.Moment, r.Moment)}, xs, sheetSmall, inkColour, false)
+	}
+	sh.y += 3
+	xs = []float32{sheetEdge, sheetEdge + 110, sheetEdge + 200, sheetEdge + 300, sheetEdge + 390}
+	sh.row([]string{"quantity", "largest", "at", "smallest", "at"}, xs, sheetSmall, faintColour, true)
+	for _, e := range sum.Extremes {
+		q := summaryUnits[e.Quantity]
+		sh.row([]string{summaryNames[e.Quantity], f(q, e.Max), f(units.Position, e.XMax), f(q, e.Min), f(units.Position, e.XMin)},
+			xs, sheetSmall, inkColour, false)
+	}
+	sh.y += 3
+	eq := sum.Equilibrium
+	sh.row([]string{fmt.Sprintf("Equilibrium residual: %s, %s, %s (relative %.1e)", f(units.Force, eq.Residual.Axial),
+		f(units.Force, eq.Residual.Transverse), f(units.Moment, eq.Residual.Moment), eq.Relative)},
+		[]float32{sheetEdge}, sheetSmall, inkColour, false)
+	sh.row([]string{fmt.Sprintf("Mesh: %d elements, %d nodes, bar order %d, condition estimate %.2e",
+		sum.Mesh.Elements, sum.Mesh.Nodes, sum.Mesh.BarOrder, sum.Mesh.Condition)}, []float32{sheetEdge}, sheetSmall, inkColour, false)
+	if e := sum.ExactError; e != nil {
+		sh.row([]string{fmt.Sprintf("Against the exact solution: deflection %s, stress %s (%.2g%%), relative energy norm %.2e",
+			f(units.Deflection, e.MaxDeflection), f(units.Stress, e.MaxStress), 100*e.MaxStressRelative, e.RelativeEnergy)},
+			[]float32{sheetEdge}, sheetSmall, inkColour, false)
+	}
+	for _, w := range sum.Warnings {
+		sh.row([]string{"Warning: " + w}, []float32{sheetEdge}, sheetSmall, problemColour, false)
+	}
+}
