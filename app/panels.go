@@ -8,7 +8,6 @@ import (
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
-	"fyne.io/fyne/v2/layout"
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
@@ -31,7 +30,7 @@ var tools = []toolInfo{
 	{toolMember, "Member", 'm', "drag along the drawing to set the member's length"},
 	{toolSplit, "Split", 'b', "click on the member to break a segment in two"},
 	{toolSupport, "Support", 'r', "click on the member to place a support of the kind chosen below"},
-	{toolForce, "Force", 'f', "click on the member to place a point force"},
+	{toolForce, "Force", 'p', "click on the member to place a point force"},
 	{toolMoment, "Moment", 't', "click on the member to place a point moment"},
 	{toolLineLoad, "Line load", 'l', "drag along the member to place a distributed load; drag its end handles to shape it"},
 	{toolVertex, "Vertex", 'k', "click on a distributed load to add a vertex, then drag it"},
@@ -123,9 +122,9 @@ func (w *Window) build() {
 	side := container.NewVSplit(
 		container.NewVScroll(c.properties),
 		container.NewVSplit(
-			container.NewBorder(heading("At the mouse"), nil, nil, nil, c.readout.grid),
+			container.NewBorder(heading("At the mouse"), nil, nil, nil, container.NewScroll(c.readout.grid)),
 			container.NewBorder(container.NewVBox(heading("Checks"), c.summary), nil, nil, nil, c.checkList)))
-	side.SetOffset(0.36)
+	side.SetOffset(0.42)
 
 	center := container.NewBorder(c.settingsBar(), c.layerBar(), nil, nil, w.draw)
 	warning := widget.NewLabelWithStyle(caution, fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
@@ -134,7 +133,7 @@ func (w *Window) build() {
 	bottom := container.NewVBox(widget.NewSeparator(), w.status, warning)
 
 	split := container.NewHSplit(center, side)
-	split.SetOffset(0.72)
+	split.SetOffset(0.68)
 	w.win.SetContent(container.NewBorder(nil, bottom, container.NewVScroll(strip), nil, split))
 	w.win.SetMainMenu(w.mainMenu())
 	w.addShortcuts()
@@ -171,7 +170,7 @@ func (c *controls) settingsBar() fyne.CanvasObject {
 	c.grid.OnSubmitted = func(s string) { w.setGrid(s) }
 	c.showGrid()
 	return container.NewHBox(
-		widget.NewLabel("Elements"), container.NewGridWrap(fyne.NewSize(80, c.elements.MinSize().Height), c.elements), finer, coarser,
+		widget.NewLabel("Elements asked"), container.NewGridWrap(fyne.NewSize(80, c.elements.MinSize().Height), c.elements), finer, coarser,
 		widget.NewLabel("Bars"), c.order,
 		widget.NewLabel("Snap step"), container.NewGridWrap(fyne.NewSize(110, c.grid.MinSize().Height), c.grid),
 		widget.NewLabel("Units"), c.unitSelect)
@@ -205,11 +204,11 @@ func (c *controls) layerBar() fyne.CanvasObject {
 	c.magnifyText = widget.NewLabel("")
 	c.showMagnification()
 	return container.NewVBox(
-		container.NewHBox(
-			toggle("Deflected shape", &l.Deformed), toggle("Axial force", &l.AxialForce),
-			toggle("Shear", &l.ShearForce), toggle("Moment", &l.BendingMoment),
-			toggle("Stress", &l.Stress), toggle("Nodes", &l.Nodes),
-			toggle("Exact vs FE", &l.ExactBand), toggle("Dimensions", &l.Dimensions)),
+		container.NewGridWithColumns(4,
+			toggle("Deflected shape", &l.Deformed), toggle("Axial force N", &l.AxialForce),
+			toggle("Shear force V", &l.ShearForce), toggle("Bending moment M", &l.BendingMoment),
+			toggle("Stress σ", &l.Stress), toggle("Nodes", &l.Nodes),
+			toggle("Exact vs FE gap", &l.ExactBand), toggle("Dimensions", &l.Dimensions)),
 		container.NewBorder(nil, nil, widget.NewLabel("Deflection scale"), container.NewHBox(c.magnifyText, auto), c.magnify))
 }
 
@@ -340,10 +339,10 @@ func (c *controls) showResults() {
 	w.hoverChanged()
 }
 
-// readout shows every quantity at the mouse x, finite element beside exact.
+// readout shows every quantity at the mouse x, finite element beside exact,
+// in a text grid: compact rows and aligned columns.
 type readout struct {
-	grid   *fyne.Container
-	labels [][3]*widget.Label
+	grid *widget.TextGrid
 }
 
 type quantity struct {
@@ -365,49 +364,35 @@ var readoutQuantities = []quantity{
 }
 
 func newReadout() *readout {
-	r := &readout{grid: container.New(layout.NewGridLayoutWithColumns(3))}
-	row := func(a, b, c string) {
-		ls := [3]*widget.Label{widget.NewLabel(a), widget.NewLabel(b), widget.NewLabel(c)}
-		for _, l := range ls {
-			l.Truncation = fyne.TextTruncateEllipsis
-			r.grid.Add(l)
-		}
-		r.labels = append(r.labels, ls)
-	}
-	row("x", "finite element", "exact")
-	for _, q := range readoutQuantities {
-		row(q.name, "", "")
-	}
-	return r
+	return &readout{grid: widget.NewTextGrid()}
+}
+
+// readoutLine lays out one line of the readout in fixed columns.
+func readoutLine(name, fe, exact string) string {
+	return fmt.Sprintf("%-20s%13s %13s", name, fe, exact)
 }
 
 func (r *readout) show(w *Window) {
 	d := w.draw
 	a := w.result
 	m := &w.project.Model
+	lines := []string{readoutLine("", "FE", "exact")}
 	if !d.hovering || a == nil || a.solution == nil || d.hoverX < 0 || d.hoverX > m.Length() {
-		r.labels[0][0].SetText("x  (move the mouse over the member)")
-		for i := range readoutQuantities {
-			r.labels[i+1][1].SetText("")
-			r.labels[i+1][2].SetText("")
-		}
+		lines = append(lines, "", "Move the mouse over the member to read", "every result at that point.")
+		r.grid.SetText(strings.Join(lines, "\n"))
 		return
 	}
 	x := d.hoverX
-	r.labels[0][0].SetText("x = " + w.units.Format(units.Position, x))
 	fe := a.solution.At(x, fem.Right)
-	var ex fem.Fields
-	if a.exact != nil {
-		ex = a.exact.At(x, fem.Right)
-	}
-	for i, q := range readoutQuantities {
-		r.labels[i+1][1].SetText(w.units.Format(q.q, q.get(fe)))
+	lines = append(lines, readoutLine("at x", w.units.Format(units.Position, x), ""))
+	for _, q := range readoutQuantities {
+		exact := "—"
 		if a.exact != nil {
-			r.labels[i+1][2].SetText(w.units.Format(q.q, q.get(ex)))
-		} else {
-			r.labels[i+1][2].SetText("—")
+			exact = w.units.Format(q.q, q.get(a.exact.At(x, fem.Right)))
 		}
+		lines = append(lines, readoutLine(q.name, w.units.Format(q.q, q.get(fe)), exact))
 	}
+	r.grid.SetText(strings.Join(lines, "\n"))
 }
 
 // storageUnits names s the way project files do.

@@ -178,7 +178,7 @@ func (c *controls) showProperties() {
 	objects = append(objects, form)
 	if len(fields) > 0 {
 		objects = append(objects, container.NewHBox(widget.NewButton("Apply", applyAll),
-			widget.NewLabel("(Enter applies; units may be typed, e.g. 12 kN)")))
+			widget.NewLabel("or Enter; e.g. 12 kN")))
 	}
 	if r.Kind == canvas.Segment {
 		name := widget.NewEntry()

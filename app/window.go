@@ -254,8 +254,8 @@ func (w *Window) deliver(a analysis) {
 	}
 	w.result = &a
 	w.checks = checkRows(&a, w.checkOptions(), w.units)
+	w.draw.Refresh() // first: the results panel reads the scene's magnification
 	w.ui.showResults()
-	w.draw.Refresh()
 }
 
 // sceneInput gathers what the drawing shows.
