@@ -5,6 +5,7 @@ import (
 	"image/color"
 	"io"
 	"math"
+	"strconv"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
@@ -62,8 +63,9 @@ func WriteConvergenceChart(w io.Writer, format string, rows []ConvergenceRow) er
 	p.X.Label.Text = "number of elements"
 	p.Y.Label.Text = "relative error"
 	p.X.Scale, p.Y.Scale = plot.LogScale{}, plot.LogScale{}
-	p.X.Tick.Marker, p.Y.Tick.Marker = plot.LogTicks{Prec: -1}, plot.LogTicks{Prec: -1}
-	p.Legend.Top = true
+	p.X.Tick.Marker, p.Y.Tick.Marker = powerTicks{}, powerTicks{}
+	p.Legend.Left = true // the errors fall to the right, leaving the lower left empty
+	p.Legend.TextStyle.Font.Size = 9
 	p.Add(plotter.NewGrid())
 	elements := make([]int, len(rows))
 	for i, r := range rows {
@@ -105,4 +107,40 @@ func WriteConvergenceChart(w io.Writer, format string, rows []ConvergenceRow) er
 	}
 	_, err = wt.WriteTo(w)
 	return err
+}
+
+// powerTicks marks the powers of ten, and 2 and 5 times them when a range
+// spans fewer than two powers, with short labels ("1e-05" rather than a
+// rounding of 0.00001).
+type powerTicks struct{}
+
+// Ticks implements plot.Ticker.
+func (powerTicks) Ticks(lo, hi float64) []plot.Tick {
+	if lo <= 0 || hi <= lo {
+		return nil
+	}
+	first, last := int(math.Floor(math.Log10(lo))), int(math.Ceil(math.Log10(hi)))
+	few := last-first <= 2
+	var ticks []plot.Tick
+	for e := first; e <= last; e++ {
+		for _, m := range []float64{1, 2, 3, 4, 5, 6, 7, 8, 9} {
+			v := m * math.Pow(10, float64(e))
+			if v < lo*(1-1e-9) || v > hi*(1+1e-9) {
+				continue
+			}
+			t := plot.Tick{Value: v}
+			if m == 1 || (few && (m == 2 || m == 5)) {
+				t.Label = tickLabel(v)
+			}
+			ticks = append(ticks, t)
+		}
+	}
+	return ticks
+}
+
+func tickLabel(v float64) string {
+	if v >= 1e-3 && v < 1e5 {
+		return strconv.FormatFloat(v, 'f', -1, 64)
+	}
+	return fmt.Sprintf("%.0e", v)
 }
