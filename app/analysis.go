@@ -5,6 +5,7 @@ import (
 	"fmt"
 
 	"stave/fem"
+	"stave/fem/check"
 )
 
 // analysis is everything the solver found for one model.
@@ -16,6 +17,7 @@ type analysis struct {
 	exact    *fem.Exact    // nil when no closed form was found
 	exactErr error
 	norms    fem.ErrorNorms // finite element against exact; zero without both
+	checks   []check.Result // nil when there is no solution
 }
 
 // analyse solves r's model by finite elements and in closed form.
@@ -29,6 +31,9 @@ func analyse(r request) analysis {
 	a.exact, a.exactErr = fem.SolveExact(&a.model)
 	if a.solution != nil && a.exact != nil {
 		a.norms = fem.Compare(a.solution, a.exact)
+	}
+	if a.solution != nil {
+		a.checks = check.Run(&a.model, a.solution, a.exact, r.opts)
 	}
 	return a
 }

@@ -4,10 +4,12 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"sort"
 
 	"fyne.io/fyne/v2/widget"
 
 	"stave/fem"
+	"stave/fem/check"
 	"stave/fem/material"
 	"stave/fem/units"
 )
@@ -22,9 +24,9 @@ type checkRow struct {
 }
 
 // checkRows lists what the user should look at for analysis a: why it
-// failed, solver warnings, materials far from typical values, and how far
-// the finite element results are from the exact ones.
-func checkRows(a *analysis, o checkOptions, u units.System) []checkRow {
+// failed, solver warnings, materials far from typical values, then the
+// results of package check, the worst first.
+func checkRows(a *analysis) []checkRow {
 	var rows []checkRow
 	if a.err != nil {
 		var mech *fem.MechanismError
@@ -50,14 +52,32 @@ func checkRows(a *analysis, o checkOptions, u units.System) []checkRow {
 	for _, msg := range a.solution.Warnings {
 		rows = append(rows, checkRow{status: "caution", message: msg, importance: widget.WarningImportance, failing: true})
 	}
-	rows = append(rows, designChecks(a, o, u)...)
-	if a.exact != nil {
-		n := a.norms
-		rows = append(rows, checkRow{status: "note", importance: widget.MediumImportance,
-			message: fmt.Sprintf("finite element vs exact: deflection differs by at most %s, combined stress by %s (%.2g%%)",
-				u.Format(units.Deflection, n.MaxDeflection), u.Format(units.Stress, n.MaxStress), 100*n.MaxStressRelative)})
-	} else if a.exactErr != nil {
-		rows = append(rows, checkRow{status: "note", message: "no exact solution to compare with: " + a.exactErr.Error()})
+	return append(rows, designRows(a)...)
+}
+
+// statusRows says how each check status is shown.
+var statusRows = map[check.Status]checkRow{
+	check.Fail: {status: "FAIL", importance: widget.DangerImportance, failing: true},
+	check.Warn: {status: "caution", importance: widget.WarningImportance},
+	check.Info: {status: "note", importance: widget.MediumImportance},
+	check.Pass: {status: "ok", importance: widget.SuccessImportance},
+}
+
+// designRows turns the results of package check into rows, the worst first.
+func designRows(a *analysis) []checkRow {
+	results := append([]check.Result(nil), a.checks...)
+	sort.SliceStable(results, func(i, j int) bool { return results[i].Status > results[j].Status })
+	rows := make([]checkRow, len(results))
+	for i, r := range results {
+		row := statusRows[r.Status]
+		row.message = r.Name + ": " + r.Message
+		row.span = r.Span
+		if row.span == [2]float64{} && r.X != 0 {
+			// A point: mark a short stretch around it so it shows.
+			half := 0.01 * a.model.Length()
+			row.span = [2]float64{math.Max(0, r.X-half), math.Min(a.model.Length(), r.X+half)}
+		}
+		rows[i] = row
 	}
 	return rows
 }

@@ -3,6 +3,7 @@ package app
 import (
 	"errors"
 	"fmt"
+	"io"
 	"os"
 	"path/filepath"
 	"strings"
@@ -33,9 +34,6 @@ func Run(path string) error {
 	p, err := startProject(path)
 	if err != nil {
 		return err
-	}
-	if path == "" {
-		p.problem = ""
 	}
 	w := NewWindow(a, p.project, path)
 	w.win.SetMaster()
@@ -429,14 +427,53 @@ func (w *Window) offerRecovery() {
 		}, w.win)
 }
 
+// exportSize is the drawing size of exported images, pixels (points for
+// vector formats): a landscape page's width.
+var exportSize = fyne.NewSize(1200, 800)
+
+// csvPointsPerElement is how many intervals of each element the results table samples.
+const csvPointsPerElement = 4
+
 // exports are the File ▸ Export products: file extension and writer.
 var exports = map[string]struct {
 	ext   string
-	write func(w *Window, f *os.File) error
+	write func(w *Window, f io.Writer) error
 }{
-	"png": {"png", func(w *Window, f *os.File) error { return canvas.WritePNG(f, w.draw.scene, 2) }},
-	"svg": {"svg", func(w *Window, f *os.File) error { return canvas.WriteSVG(f, w.draw.scene) }},
-	"pdf": {"pdf", func(w *Window, f *os.File) error { return canvas.WritePDF(f, w.draw.scene) }},
+	"png":   {"png", func(w *Window, f io.Writer) error { return w.writeImage(f, "png") }},
+	"svg":   {"svg", func(w *Window, f io.Writer) error { return w.writeImage(f, "svg") }},
+	"pdf":   {"pdf", func(w *Window, f io.Writer) error { return w.writeImage(f, "pdf") }},
+	"sheet": {"pdf", (*Window).writeSheet},
+	"csv": {"csv", func(w *Window, f io.Writer) error {
+		in := w.sceneInput()
+		return canvas.WriteCSV(f, in.Solution, in.Exact, w.units, csvPointsPerElement)
+	}},
+}
+
+// panels are the diagrams switched on in the window, for exports.
+func (w *Window) panels() canvas.ExportPanels {
+	l := w.layers
+	return canvas.ExportPanels{Deformed: l.Deformed, AxialForce: l.AxialForce, ShearForce: l.ShearForce,
+		BendingMoment: l.BendingMoment, Stress: l.Stress}
+}
+
+func (w *Window) writeImage(f io.Writer, format string) error {
+	return canvas.WriteImage(f, format, w.sceneInput(), w.panels(), exportSize.Width, exportSize.Height)
+}
+
+func (w *Window) writeSheet(f io.Writer) error {
+	n := w.project.Notes
+	var flagged []string
+	for _, r := range w.checks {
+		if r.importance == widget.DangerImportance || r.importance == widget.WarningImportance {
+			flagged = append(flagged, r.status+": "+r.message)
+		}
+	}
+	return canvas.WriteSheet(f, "pdf", canvas.SheetInput{
+		Input:  w.sceneInput(),
+		Notes:  canvas.SheetNotes{Project: n.Project, Mark: n.Member, Engineer: n.Engineer, Date: n.Date, Version: Version},
+		Panels: w.panels(),
+		Checks: flagged,
+	})
 }
 
 // export writes one of the exports to a file the user chooses.
@@ -455,7 +492,7 @@ func (w *Window) export(kind string) {
 	})
 }
 
-func (w *Window) writeExport(path string, write func(*Window, *os.File) error) error {
+func (w *Window) writeExport(path string, write func(*Window, io.Writer) error) error {
 	f, err := os.Create(path)
 	if err != nil {
 		return fmt.Errorf("cannot export: %w", err)

@@ -315,10 +315,8 @@ func (w *Window) setUnits(s units.System) {
 	w.project.View.Units = storageUnits(s)
 	w.ui.showGrid()
 	w.ui.showProperties()
-	if w.result != nil {
-		w.checks = checkRows(w.result, w.checkOptions(), w.units)
-		w.ui.showResults()
-	}
+	// Check messages are written in the display units: solve again.
+	w.pending = w.solver.submit(w.project.Model, w.checkOptions())
 	w.hoverChanged()
 	w.draw.Refresh()
 	w.updateTitle()

@@ -5,12 +5,14 @@ import (
 	"sync/atomic"
 
 	"stave/fem"
+	"stave/fem/check"
 )
 
 // request is one model to analyse, numbered in the order of the edits.
 type request struct {
 	seq   uint64
 	model fem.Model // a deep copy owned by the solver
+	opts  check.Options
 }
 
 // solver analyses models on its own goroutine. Requests go through a
@@ -48,9 +50,9 @@ func newSolver(analyse func(request) analysis, post func(func()), deliver func(a
 
 // submit queues a copy of m and returns its sequence number. It never blocks.
 // It must be called from one goroutine only (the UI's).
-func (s *solver) submit(m fem.Model) uint64 {
+func (s *solver) submit(m fem.Model, opts check.Options) uint64 {
 	s.next++
-	r := request{seq: s.next, model: cloneModel(m)}
+	r := request{seq: s.next, model: cloneModel(m), opts: opts}
 	s.latest.Store(r.seq)
 	for {
 		select {

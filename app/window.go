@@ -12,6 +12,7 @@ import (
 
 	"stave/canvas"
 	"stave/fem"
+	"stave/fem/check"
 	"stave/fem/units"
 	"stave/storage"
 )
@@ -171,7 +172,7 @@ func (w *Window) apply(name string, change func(m *fem.Model) error) error {
 // setModel makes m current and sends it to the solver; m must not be changed afterwards.
 func (w *Window) setModel(m fem.Model) {
 	w.project.Model = m
-	w.pending = w.solver.submit(m)
+	w.pending = w.solver.submit(m, w.checkOptions())
 	w.keepSelectionValid()
 	w.modelChanged()
 }
@@ -253,9 +254,14 @@ func (w *Window) deliver(a analysis) {
 		return // stale: the model changed since
 	}
 	w.result = &a
-	w.checks = checkRows(&a, w.checkOptions(), w.units)
+	w.checks = checkRows(&a)
 	w.draw.Refresh() // first: the results panel reads the scene's magnification
 	w.ui.showResults()
+}
+
+// checkOptions are the check limits of the project, messages in the display units.
+func (w *Window) checkOptions() check.Options {
+	return check.Options{SpanRatio: w.project.View.DeflectionLimit, SafetyFactor: w.project.View.SafetyFactor, Units: w.units}
 }
 
 // sceneInput gathers what the drawing shows.
