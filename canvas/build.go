@@ -71,7 +71,7 @@ func Build(in Input, v View) *Scene {
 	if in.Model == nil {
 		return b.s
 	}
-	lay := layout(in.Layers, v)
+	lay := layout(in.Layers, v, reactionRows(in))
 	b.s.SketchBottom = lay.sketchBottom
 	b.s.MemberY = lay.memberY
 	if in.Highlight != [2]float64{} {
@@ -111,7 +111,7 @@ type stripPlace struct {
 	top, bottom float32
 }
 
-func layout(l Layers, v View) layoutBands {
+func layout(l Layers, v View, rows int) layoutBands {
 	var on []diagram
 	for _, d := range diagramsList {
 		if d.enabled(l) {
@@ -127,8 +127,8 @@ func layout(l Layers, v View) layoutBands {
 		}
 	}
 	lay := layoutBands{top: top, sketchBottom: top + sketch}
-	// Below the member: support symbols, reactions and two dimension lines.
-	lay.memberY = top + max(sketch*0.5, sketch-120)
+	// Below the member: support symbols, rows of reactions and two dimension lines.
+	lay.memberY = top + max(sketch*0.5, sketch-belowMember(rows)-40)
 	if len(on) > 0 {
 		stripH := max(90, (v.Height-sketch)/float32(len(on)))
 		y := lay.sketchBottom
@@ -179,6 +179,9 @@ func (b *builder) text(s string, x, y float32, size float32, ax, ay float32, c c
 func (b *builder) label(s string, size float32, c color.NRGBA, bold, force bool, cands ...labelSpot) (rect, bool) {
 	w, h := textWidth(s, size, bold), textHeight(size)
 	for i, cand := range cands {
+		if cand.x < -20 || cand.x > b.v.Width+20 {
+			continue // the thing labelled is off screen
+		}
 		left := max(2, min(b.v.Width-w-2, cand.x-cand.ax*w))
 		r := rect{left, cand.y - cand.ay*h, left + w, cand.y - cand.ay*h + h}
 		padded := rect{r.x0 - 3, r.y0 - 1, r.x1 + 3, r.y1 + 1}
@@ -293,4 +296,32 @@ func keyPoints(m *fem.Model) []float64 {
 		}
 	}
 	return out
+}
+
+// reactionRowHeight is the height of one line of reaction labels.
+const reactionRowHeight = smallSize*1.2 + 2
+
+// belowMember is the height the support symbols, rows lines of reactions and
+// the chain dimension take under the member axis.
+func belowMember(rows int) float32 {
+	return supportHeight + 10 + float32(rows)*reactionRowHeight + 30
+}
+
+// reactionRows is the largest number of reaction labels under one support.
+func reactionRows(in Input) int {
+	if in.Solution == nil || in.Model == nil {
+		return 0
+	}
+	b := builder{in: in}
+	rows := 0
+	for _, r := range in.Solution.Reactions {
+		n := 0
+		for d := range 3 {
+			if r.Force[d] != 0 && b.supportHolds(r.Support, fem.Dof(d)) {
+				n++
+			}
+		}
+		rows = max(rows, n)
+	}
+	return rows
 }

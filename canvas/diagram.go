@@ -224,6 +224,7 @@ func (b *builder) stressBand(fe, ex *curve, y, legendY float32) {
 			b.rectangle(x0, y, x1, y+8, stressColour(float64(runStep)/steps))
 		}
 	}
+	last := 0
 	for k, col := range c.cols {
 		if col.n == 0 {
 			continue // a column between samples continues the run
@@ -232,8 +233,9 @@ func (b *builder) stressBand(fe, ex *curve, y, legendY float32) {
 			flush(k)
 			runStart, runStep = k, s
 		}
+		last = k
 	}
-	flush(len(c.cols))
+	flush(last + 1)
 	// Legend: compression on the left, tension on the right.
 	lx := b.v.Width - 190
 	ly := legendY

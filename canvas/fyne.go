@@ -10,24 +10,35 @@ import (
 	"gonum.org/v1/plot/vg/vgimg"
 )
 
-// Draw turns the scene into Fyne canvas objects placed in scene pixels: one
-// raster holding every line, polygon and circle (painted by the same code as
-// the PNG, at the screen's own pixel density) and one text object per label.
-// The number of objects is therefore 1 + the number of labels.
+// Draw turns the scene into Fyne canvas objects placed in scene pixels: a
+// white background, one raster holding every line, polygon and circle
+// (painted by the same code as the PNG, at the screen's own pixel density)
+// and one text object per label. The number of objects is therefore 2 + the
+// number of labels, whatever the size of the mesh.
 func Draw(s *Scene) []fyne.CanvasObject {
+	bg := fynecanvas.NewRectangle(color.White)
+	bg.Resize(fyne.NewSize(s.Width, s.Height))
 	r := fynecanvas.NewRaster(func(w, h int) image.Image { return rasterize(s, w, h) })
-	r.Move(fyne.NewPos(0, 0))
 	r.Resize(fyne.NewSize(s.Width, s.Height))
-	objs := []fyne.CanvasObject{r}
+	objs := []fyne.CanvasObject{bg, r}
 	for _, it := range s.Items {
 		if it.Kind != Text {
 			continue
 		}
+		style := fyne.TextStyle{Bold: it.Bold}
 		t := fynecanvas.NewText(it.Text, it.Stroke)
-		t.TextSize = it.Size
-		t.TextStyle = fyne.TextStyle{Bold: it.Bold}
-		t.Move(fyne.NewPos(it.At.X, it.At.Y))
-		t.Resize(fyne.NewSize(it.Width, textHeight(it.Size)))
+		t.TextStyle = style
+		// The screen font is a little wider than the one the scene was laid
+		// out with: shrink it to the measured width so labels keep their places.
+		size := it.Size
+		m := fyne.MeasureText(it.Text, size, style)
+		if m.Width > it.Width && it.Width > 0 {
+			size *= it.Width / m.Width
+			m = fyne.MeasureText(it.Text, size, style)
+		}
+		t.TextSize = size
+		t.Move(fyne.NewPos(it.At.X, it.At.Y+(textHeight(it.Size)-m.Height)/2))
+		t.Resize(m)
 		objs = append(objs, t)
 	}
 	return objs

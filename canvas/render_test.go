@@ -149,12 +149,12 @@ func TestDrawForFyne(t *testing.T) {
 			texts++
 		}
 	}
-	if len(objs) != texts+1 {
-		t.Errorf("Draw made %d objects for %d labels, want one raster plus one per label", len(objs), texts)
+	if len(objs) != texts+2 {
+		t.Errorf("Draw made %d objects for %d labels, want a background, a raster and one per label", len(objs), texts)
 	}
-	r, ok := objs[0].(*fynecanvas.Raster)
+	r, ok := objs[1].(*fynecanvas.Raster)
 	if !ok {
-		t.Fatalf("first object is %T, want the raster of shapes", objs[0])
+		t.Fatalf("second object is %T, want the raster of shapes", objs[1])
 	}
 	if r.Size() != fyne.NewSize(s.Width, s.Height) {
 		t.Errorf("raster is %v, want the scene size", r.Size())

@@ -453,7 +453,7 @@ func (b *builder) reactions(y float32) {
 		var parts []string
 		names := [3]string{"Rx ", "Ry ", "Mr "}
 		qs := [3]units.Quantity{units.Force, units.Force, units.Moment}
-		for d := 0; d < 3; d++ {
+		for d := range 3 {
 			if r.Force[d] != 0 && b.supportHolds(r.Support, fem.Dof(d)) {
 				parts = append(parts, names[d]+b.format(qs[d], r.Force[d]))
 			}
@@ -488,7 +488,7 @@ func (b *builder) dimensions(y float32) {
 		xs = append(xs, s.X)
 	}
 	xs = uniqueSorted(xs)
-	chainY := y + supportHeight + 44
+	chainY := y + belowMember(reactionRows(b.in)) - 16
 	for k := 1; k < len(xs); k++ {
 		b.dimension(xs[k-1], xs[k], chainY, "")
 	}
