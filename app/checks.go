@@ -17,7 +17,8 @@ import (
 // checkRow is one line of the checks list.
 type checkRow struct {
 	status     string // short word in front: "FAIL", "caution", "ok", "note"
-	message    string
+	name       string // what was checked, one line
+	message    string // the full explanation
 	importance widget.Importance
 	span       [2]float64 // place on the member to highlight, m; {0, 0} for none
 	failing    bool       // makes the drawing mark results as unreliable
@@ -31,9 +32,9 @@ func checkRows(a *analysis) []checkRow {
 	if a.err != nil {
 		var mech *fem.MechanismError
 		if errors.As(a.err, &mech) {
-			rows = append(rows, checkRow{status: "FREE MOTION", message: mech.Message, importance: widget.DangerImportance, failing: true})
+			rows = append(rows, checkRow{status: "FAIL", name: "free motion (" + mech.Motion + ")", message: mech.Message, importance: widget.DangerImportance, failing: true})
 		} else {
-			rows = append(rows, checkRow{status: "no results", message: a.err.Error(), importance: widget.DangerImportance, failing: true})
+			rows = append(rows, checkRow{status: "FAIL", name: "no results", message: a.err.Error(), importance: widget.DangerImportance, failing: true})
 		}
 	}
 	seen := map[string]bool{}
@@ -41,7 +42,7 @@ func checkRows(a *analysis) []checkRow {
 		for _, msg := range material.FarFromTypical(s.Material) {
 			if !seen[msg] {
 				seen[msg] = true
-				rows = append(rows, checkRow{status: "caution", message: fmt.Sprintf("segment %d: %s", i+1, msg),
+				rows = append(rows, checkRow{status: "caution", name: fmt.Sprintf("material of segment %d", i+1), message: msg,
 					importance: widget.WarningImportance, span: [2]float64{s.Start, s.End}})
 			}
 		}
@@ -50,7 +51,7 @@ func checkRows(a *analysis) []checkRow {
 		return rows
 	}
 	for _, msg := range a.solution.Warnings {
-		rows = append(rows, checkRow{status: "caution", message: msg, importance: widget.WarningImportance, failing: true})
+		rows = append(rows, checkRow{status: "caution", name: "solver", message: msg, importance: widget.WarningImportance, failing: true})
 	}
 	return append(rows, designRows(a)...)
 }
@@ -70,7 +71,7 @@ func designRows(a *analysis) []checkRow {
 	rows := make([]checkRow, len(results))
 	for i, r := range results {
 		row := statusRows[r.Status]
-		row.message = r.Name + ": " + r.Message
+		row.name, row.message = r.Name, r.Message
 		row.span = r.Span
 		if row.span == [2]float64{} && r.X != 0 {
 			// A point: mark a short stretch around it so it shows.
@@ -103,6 +104,6 @@ func resultSummary(a *analysis, u units.System) string {
 	s := a.solution
 	e := s.Equilibrium
 	res := math.Max(math.Abs(e.Residual[0]), math.Abs(e.Residual[1]))
-	return fmt.Sprintf("%d elements, %d nodes; equilibrium residual %s, %s; condition estimate %.2g",
+	return fmt.Sprintf("%d elements, %d nodes · out of balance %s, %s · condition ≈ %.2g",
 		len(s.Mesh.Elements), len(s.Mesh.X), u.Format(units.Force, res), u.Format(units.Moment, math.Abs(e.Residual[2])), s.Condition)
 }

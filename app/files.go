@@ -465,7 +465,7 @@ func (w *Window) writeSheet(f io.Writer) error {
 	var flagged []string
 	for _, r := range w.checks {
 		if r.importance == widget.DangerImportance || r.importance == widget.WarningImportance {
-			flagged = append(flagged, r.status+": "+r.message)
+			flagged = append(flagged, r.status+" — "+r.name+": "+r.message)
 		}
 	}
 	return canvas.WriteSheet(f, "pdf", canvas.SheetInput{

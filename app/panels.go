@@ -2,11 +2,13 @@ package app
 
 import (
 	"fmt"
+	"image/color"
 	"math"
 	"strconv"
 	"strings"
 
 	"fyne.io/fyne/v2"
+	fynecanvas "fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/widget"
 
@@ -48,6 +50,7 @@ type controls struct {
 	readout     *readout
 	checkList   *widget.List
 	summary     *widget.Label
+	checkDetail *widget.Label
 	elements    *widget.Entry
 	order       *widget.Select
 	unitSelect  *widget.Select
@@ -98,33 +101,31 @@ func (w *Window) build() {
 		func() int { return len(w.checks) },
 		func() fyne.CanvasObject {
 			l := widget.NewLabel("")
-			l.Wrapping = fyne.TextWrapWord
+			l.Truncation = fyne.TextTruncateEllipsis
 			return l
 		},
 		func(i widget.ListItemID, o fyne.CanvasObject) {
 			r := w.checks[i]
 			l := o.(*widget.Label)
-			l.SetText(r.status + "  " + r.message)
+			l.SetText(r.status + "  " + r.name)
 			l.Importance = r.importance
 			l.Refresh()
 		})
+	c.checkDetail = widget.NewLabel("Click a check to read it and see its place on the drawing.")
+	c.checkDetail.Wrapping = fyne.TextWrapWord
 	c.checkList.OnSelected = func(i widget.ListItemID) {
 		if i < len(w.checks) {
-			w.highlight = w.checks[i].span
-			w.draw.Refresh()
+			w.selectCheck(w.checks[i])
 		}
 	}
-	c.checkList.OnUnselected = func(widget.ListItemID) {
-		w.highlight = [2]float64{}
-		w.draw.Refresh()
-	}
+	c.checkList.OnUnselected = func(widget.ListItemID) { w.selectCheck(checkRow{}) }
 
 	side := container.NewVSplit(
 		container.NewVScroll(c.properties),
 		container.NewVSplit(
 			container.NewBorder(heading("At the mouse"), nil, nil, nil, container.NewScroll(c.readout.grid)),
-			container.NewBorder(container.NewVBox(heading("Checks"), c.summary), nil, nil, nil, c.checkList)))
-	side.SetOffset(0.42)
+			container.NewBorder(container.NewVBox(heading("Checks"), c.summary), minHeight(80, container.NewVScroll(c.checkDetail)), nil, nil, c.checkList)))
+	side.SetOffset(0.3)
 
 	center := container.NewBorder(c.settingsBar(), c.layerBar(), nil, nil, w.draw)
 	warning := widget.NewLabelWithStyle(caution, fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
@@ -138,6 +139,13 @@ func (w *Window) build() {
 	w.win.SetMainMenu(w.mainMenu())
 	w.addShortcuts()
 	w.setTool(toolPick)
+}
+
+// minHeight gives o at least h pixels of height.
+func minHeight(h float32, o fyne.CanvasObject) fyne.CanvasObject {
+	r := fynecanvas.NewRectangle(color.Transparent)
+	r.SetMinSize(fyne.NewSize(0, h))
+	return container.NewStack(r, o)
 }
 
 func heading(s string) *widget.Label {
@@ -160,20 +168,20 @@ func (c *controls) settingsBar() fyne.CanvasObject {
 			w.apply("use "+s+" elements", func(m *fem.Model) error { m.Mesh.BarOrder = order; return nil })
 		}
 	})
-	c.unitSelect = widget.NewSelect([]string{units.SI.Name, units.USCustomary.Name}, func(s string) {
-		if sys, ok := units.ByName(s); ok && sys.Name != w.units.Name {
+	c.unitSelect = widget.NewSelect([]string{units.SI.Name + " units", units.USCustomary.Name + " units"}, func(s string) {
+		if sys, ok := units.ByName(strings.TrimSuffix(s, " units")); ok && sys.Name != w.units.Name {
 			w.setUnits(sys)
 		}
 	})
-	c.unitSelect.SetSelected(w.units.Name)
+	c.unitSelect.SetSelected(w.units.Name + " units")
 	c.grid = widget.NewEntry()
 	c.grid.OnSubmitted = func(s string) { w.setGrid(s) }
 	c.showGrid()
 	return container.NewHBox(
-		widget.NewLabel("Elements asked"), container.NewGridWrap(fyne.NewSize(80, c.elements.MinSize().Height), c.elements), finer, coarser,
-		widget.NewLabel("Bars"), c.order,
-		widget.NewLabel("Snap step"), container.NewGridWrap(fyne.NewSize(110, c.grid.MinSize().Height), c.grid),
-		widget.NewLabel("Units"), c.unitSelect)
+		widget.NewLabel("Elements"), container.NewGridWrap(fyne.NewSize(70, c.elements.MinSize().Height), c.elements), finer, coarser,
+		c.order,
+		widget.NewLabel("Snap"), container.NewGridWrap(fyne.NewSize(100, c.grid.MinSize().Height), c.grid),
+		c.unitSelect)
 }
 
 // layerBar holds the overlay switches and the magnification below the drawing.
@@ -327,6 +335,17 @@ func (w *Window) hoverChanged() {
 	w.ui.readout.show(w)
 }
 
+// selectCheck shows the full message of r and marks its place on the drawing.
+func (w *Window) selectCheck(r checkRow) {
+	w.highlight = r.span
+	if r.name == "" {
+		w.ui.checkDetail.SetText("")
+	} else {
+		w.ui.checkDetail.SetText(r.status + " — " + r.name + ": " + r.message)
+	}
+	w.draw.Refresh()
+}
+
 // showResults refreshes everything that shows the newest analysis.
 func (c *controls) showResults() {
 	w := c.w
@@ -367,7 +386,7 @@ func newReadout() *readout {
 
 // readoutLine lays out one line of the readout in fixed columns.
 func readoutLine(name, fe, exact string) string {
-	return fmt.Sprintf("%-20s%13s %13s", name, fe, exact)
+	return fmt.Sprintf("%-19s%12s %12s", name, fe, exact)
 }
 
 func (r *readout) show(w *Window) {
