@@ -45,14 +45,5 @@ func WriteImage(w io.Writer, format string, in Input, panels ExportPanels, width
 	in.Hovering = false
 	v := NewView(width, height)
 	v.Fit(in.Model)
-	s := Build(in, v)
-	switch format {
-	case "png":
-		return WritePNG(w, s, 1)
-	case "svg":
-		return WriteSVG(w, s)
-	case "pdf":
-		return WritePDF(w, s)
-	}
-	return fmt.Errorf("canvas: cannot export an image as %q: use \"png\", \"svg\" or \"pdf\"", format)
+	return writeScene(w, Build(in, v), format, 1)
 }

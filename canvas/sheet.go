@@ -6,10 +6,6 @@ import (
 	"io"
 	"strings"
 
-	"gonum.org/v1/plot/vg"
-	"gonum.org/v1/plot/vg/vgimg"
-	"gonum.org/v1/plot/vg/vgpdf"
-
 	"stave/fem"
 	"stave/fem/units"
 )
@@ -47,21 +43,10 @@ func WriteSheet(w io.Writer, format string, in SheetInput) error {
 	if in.Input.Model == nil {
 		return fmt.Errorf("canvas: the calculation sheet needs a model")
 	}
-	page := buildSheet(in)
-	switch format {
-	case "pdf":
-		c := vgpdf.New(vg.Length(page.Width), vg.Length(page.Height))
-		paint(c, page, 1, forPDF)
-		_, err := c.WriteTo(w)
-		return err
-	case "png":
-		k := float64(sheetDPI) / 72
-		c := vgimg.NewWith(vgimg.UseWH(vg.Length(float64(page.Width)*k), vg.Length(float64(page.Height)*k)), vgimg.UseDPI(72))
-		paint(c, page, k, allText)
-		_, err := vgimg.PngCanvas{Canvas: c}.WriteTo(w)
-		return err
+	if format != "pdf" && format != "png" {
+		return fmt.Errorf("canvas: cannot write a calculation sheet as %q: use \"pdf\" or \"png\"", format)
 	}
-	return fmt.Errorf("canvas: cannot write a calculation sheet as %q: use \"pdf\" or \"png\"", format)
+	return writeScene(w, buildSheet(in), format, float64(sheetDPI)/72)
 }
 
 // sheet lays out text rows on the page scene.

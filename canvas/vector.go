@@ -134,35 +134,41 @@ func paint(c vg.Canvas, s *Scene, k float64, style paintStyle) {
 }
 
 // WritePNG writes the scene as a PNG of Width·scale × Height·scale pixels.
-func WritePNG(w io.Writer, s *Scene, scale float64) error {
+func WritePNG(w io.Writer, s *Scene, scale float64) error { return writeScene(w, s, "png", scale) }
+
+// WriteSVG writes the scene as SVG, one point per scene pixel.
+func WriteSVG(w io.Writer, s *Scene) error { return writeScene(w, s, "svg", 1) }
+
+// WritePDF writes the scene as a one-page PDF, one point per scene pixel.
+func WritePDF(w io.Writer, s *Scene) error { return writeScene(w, s, "pdf", 1) }
+
+// writeScene writes s as "png" (scale pixels per scene pixel), "svg" or
+// "pdf" (one point per scene pixel).
+func writeScene(w io.Writer, s *Scene, format string, scale float64) error {
+	if format != "png" {
+		scale = 1
+	}
 	if err := checkSize(s, scale); err != nil {
 		return err
 	}
-	// At 72 dpi one point is one pixel.
-	c := vgimg.NewWith(vgimg.UseWH(vg.Length(float64(s.Width)*scale), vg.Length(float64(s.Height)*scale)), vgimg.UseDPI(72))
-	paint(c, s, scale, allText)
-	_, err := vgimg.PngCanvas{Canvas: c}.WriteTo(w)
-	return err
-}
-
-// WriteSVG writes the scene as SVG, one point per scene pixel.
-func WriteSVG(w io.Writer, s *Scene) error {
-	if err := checkSize(s, 1); err != nil {
-		return err
+	var c interface {
+		vg.Canvas
+		io.WriterTo
 	}
-	c := vgsvg.New(vg.Length(s.Width), vg.Length(s.Height))
-	paint(c, s, 1, allText)
-	_, err := c.WriteTo(w)
-	return err
-}
-
-// WritePDF writes the scene as a one-page PDF, one point per scene pixel.
-func WritePDF(w io.Writer, s *Scene) error {
-	if err := checkSize(s, 1); err != nil {
-		return err
+	style := allText
+	switch format {
+	case "png":
+		// At 72 dpi one point is one pixel.
+		c = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(vg.Length(float64(s.Width)*scale), vg.Length(float64(s.Height)*scale)), vgimg.UseDPI(72))}
+	case "svg":
+		c = vgsvg.New(vg.Length(s.Width), vg.Length(s.Height))
+	case "pdf":
+		c = vgpdf.New(vg.Length(s.Width), vg.Length(s.Height))
+		style = forPDF
+	default:
+		return fmt.Errorf("canvas: cannot write a drawing as %q: use \"png\", \"svg\" or \"pdf\"", format)
 	}
-	c := vgpdf.New(vg.Length(s.Width), vg.Length(s.Height))
-	paint(c, s, 1, forPDF)
+	paint(c, s, scale, style)
 	_, err := c.WriteTo(w)
 	return err
 }
