@@ -1,0 +1,121 @@
+package app
+
+import (
+	"bytes"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/driver/desktop"
+
+	"stave/canvas"
+	"stave/fem"
+	"stave/storage"
+)
+
+// TestSaveMarksTitleAndReopens saves, edits (the title shows unsaved
+// changes), and opens the saved file again.
+func TestSaveMarksTitleAndReopens(t *testing.T) {
+	w, q := newTestWindow(t, demoProject(t))
+	path := filepath.Join(t.TempDir(), "joist.json")
+	w.writeProject(path, nil)
+	if title := w.win.Title(); title != "Stave — joist.json" {
+		t.Fatalf("title after saving is %q", title)
+	}
+	x0 := w.Model().PointLoads[0].X
+	w.apply("move the load", func(m *fem.Model) error { m.PointLoads[0].X += 0.5; return nil })
+	if title := w.win.Title(); !strings.HasSuffix(title, "•") {
+		t.Errorf("title after an edit is %q, want a mark for unsaved changes", title)
+	}
+	w.undo()
+	if title := w.win.Title(); strings.HasSuffix(title, "•") {
+		t.Errorf("title after undoing back to the saved state is %q", title)
+	}
+	w.apply("move the load", func(m *fem.Model) error { m.PointLoads[0].X += 0.5; return nil })
+	w.openPath(path)
+	if got := w.Model().PointLoads[0].X; got != x0 {
+		t.Errorf("reopened file has the load at %g m, want %g m", got, x0)
+	}
+	if len(w.hist.done) != 0 {
+		t.Errorf("opening a file kept %d undo steps of the previous project", len(w.hist.done))
+	}
+	solved(t, w, q)
+}
+
+// TestExports writes every export and checks each file starts the way its
+// format requires.
+func TestExports(t *testing.T) {
+	w, q := newTestWindow(t, demoProject(t))
+	solved(t, w, q)
+	dir := t.TempDir()
+	starts := map[string]string{"png": "\x89PNG", "svg": "<?xml", "pdf": "%PDF", "sheet": "%PDF", "csv": "x"}
+	for kind, e := range exports {
+		path := filepath.Join(dir, kind+"."+e.ext)
+		if err := w.writeExport(path, e.write); err != nil {
+			t.Errorf("%s: %v", kind, err)
+			continue
+		}
+		data, err := os.ReadFile(path)
+		if err != nil || !bytes.HasPrefix(data, []byte(starts[kind])) {
+			t.Errorf("%s export starts with %q, want %q", kind, data[:min(len(data), 8)], starts[kind])
+		}
+	}
+}
+
+// TestChecksShowFreeMotionAndHighlight: a member on one roller can move;
+// the checks list says so. Selecting a check with a place highlights it.
+func TestChecksShowFreeMotionAndHighlight(t *testing.T) {
+	p := &storage.Project{View: storage.DefaultView(), Model: newMember(4)}
+	p.Model.Supports = []fem.Support{{X: 0, Kind: fem.Roller}}
+	w, q := newTestWindow(t, p)
+	q.waitFor(t, "the solver", func() bool { return w.result != nil && w.result.seq == w.pending })
+	if len(w.checks) == 0 || w.checks[0].status != "FAIL" || !strings.HasPrefix(w.checks[0].name, "free motion") {
+		t.Fatalf("checks of a member on one roller: %+v", w.checks)
+	}
+	if !w.sceneInput().Unreliable {
+		t.Error("results of a mechanism are not marked unreliable")
+	}
+
+	w.apply("add a pinned support", func(m *fem.Model) error { addSupport(m, fem.Pinned, 4); return nil })
+	solved(t, w, q)
+	for i, r := range w.checks {
+		if r.span != [2]float64{} {
+			w.ui.checkList.Select(i)
+			if w.sceneInput().Highlight != r.span {
+				t.Errorf("selecting check %q highlights %v, want %v", r.name, w.sceneInput().Highlight, r.span)
+			}
+			return
+		}
+	}
+	t.Errorf("no check of a loaded simply supported member names a place: %+v", w.checks)
+}
+
+// TestKeys: tool letters pick tools, Delete removes the selection, Ctrl+Z undoes.
+func TestKeys(t *testing.T) {
+	w, _ := newTestWindow(t, demoProject(t))
+	c := w.win.Canvas()
+	w.typedRune('r')
+	if w.tool != toolSupport {
+		t.Errorf("R picked tool %d, want the support tool", w.tool)
+	}
+	n := len(w.Model().Supports)
+	w.selectItem(canvas.Ref{Kind: canvas.Support, Index: 1})
+	c.OnTypedKey()(&fyne.KeyEvent{Name: fyne.KeyDelete})
+	if got := len(w.Model().Supports); got != n-1 {
+		t.Fatalf("Delete left %d supports, want %d", got, n-1)
+	}
+	sc, ok := c.(interface{ TypedShortcut(fyne.Shortcut) })
+	if !ok {
+		t.Fatal("the test canvas takes no shortcuts")
+	}
+	sc.TypedShortcut(&desktop.CustomShortcut{KeyName: fyne.KeyZ, Modifier: fyne.KeyModifierShortcutDefault})
+	if got := len(w.Model().Supports); got != n {
+		t.Errorf("Ctrl+Z after Delete left %d supports, want %d", got, n)
+	}
+	sc.TypedShortcut(&desktop.CustomShortcut{KeyName: fyne.KeyZ, Modifier: fyne.KeyModifierShortcutDefault | fyne.KeyModifierShift})
+	if got := len(w.Model().Supports); got != n-1 {
+		t.Errorf("Ctrl+Shift+Z left %d supports, want %d", got, n-1)
+	}
+}
