@@ -1,0 +1,77 @@
+package bench
+
+import (
+	"io"
+	"time"
+)
+
+// Part selects a section of the benchmark.
+type Part uint
+
+// The sections Run can measure.
+const (
+	EndToEnd Part = 1 << iota // mesh, solve and fields through fem's public API
+	Memory                    // bytes allocated and peak heap growth per element
+	Kernels                   // ours vs Pbtrf+Pbtrs vs one copy of the band, on the identical system
+	Dense                     // ours vs gonum's dense Cholesky on small identical systems
+	Pitfall                   // mat.BandCholesky.Factorize vs Pbtrf
+	Oversize                  // fem.Solve on a request beyond the machine's memory
+
+	AllParts = EndToEnd | Memory | Kernels | Dense | Pitfall | Oversize
+)
+
+// Config says what Run measures and how often.
+type Config struct {
+	// Elements lists the mesh sizes (requested elements) of the main table.
+	Elements []int
+	// ExponentFrom is the smallest size that enters the scaling exponent:
+	// below it fixed costs hide the growth with n.
+	ExponentFrom int
+	// DenseUnknowns lists the system sizes of the comparison with the dense
+	// solver, whose cost grows as n³.
+	DenseUnknowns []int
+	// PitfallUnknowns lists the beam system sizes at which mat.BandCholesky is
+	// timed; keep them at or below about 20,000, where it already takes seconds.
+	PitfallUnknowns []int
+	// OversizeElements is the mesh request sent to fem.Solve to show the refusal.
+	OversizeElements int
+	// Repetitions of each timing; the median is reported.
+	Repetitions int
+	// MinBatch is the shortest interval timed at once; quicker operations are
+	// repeated until it is reached, so the clock's resolution does not matter.
+	MinBatch time.Duration
+	// Parts selects the sections to run.
+	Parts Part
+	// Progress, when not nil, receives one line per step as the run goes.
+	Progress io.Writer
+}
+
+// DefaultConfig is the full benchmark: 1e3 to 1e6 elements. It takes a
+// minute or two on two cores.
+func DefaultConfig() Config {
+	return Config{
+		Elements:         []int{1_000, 10_000, 100_000, 1_000_000},
+		ExponentFrom:     10_000,
+		DenseUnknowns:    []int{500, 1_000, 2_000},
+		PitfallUnknowns:  []int{2_500, 5_000, 10_000, 20_000},
+		OversizeElements: 1_000_000_000,
+		Repetitions:      5,
+		MinBatch:         20 * time.Millisecond,
+		Parts:            AllParts,
+	}
+}
+
+// QuickConfig runs every part at small sizes, in a second or so; it is for
+// tests and for checking that the harness works, not for numbers.
+func QuickConfig() Config {
+	return Config{
+		Elements:         []int{200, 400, 800},
+		ExponentFrom:     200,
+		DenseUnknowns:    []int{100, 200},
+		PitfallUnknowns:  []int{500, 1_000},
+		OversizeElements: 1_000_000_000,
+		Repetitions:      3,
+		MinBatch:         time.Millisecond,
+		Parts:            AllParts,
+	}
+}

@@ -1,0 +1,43 @@
+// Package bench measures how fast and how lean fem's solve path is, and
+// compares its banded kernel with gonum's solvers on the very same linear
+// systems.
+//
+// # What is measured
+//
+// For a bar model and a beam model (mixed loads, several supports) at each
+// requested number of elements, Run times, as separate parts:
+//
+//   - mesh: fem.BuildMesh;
+//   - solve: fem.SolveOnMesh (validation, element table, banded assembly,
+//     factorization, solve, condition estimate, reactions, equilibrium);
+//   - fields: fem.Summarize (a sampling pass over every element for the
+//     extremes of the fields, plus the reactions);
+//
+// and their sum, the end-to-end total. Memory is measured in a separate,
+// untimed pass: the bytes allocated and the peak growth of the heap in use,
+// both per element.
+//
+// The inside of SolveOnMesh cannot be timed from outside, so the kernel is
+// timed on a system the benchmark assembles itself (Assemble): the same
+// linear bar or Hermite beam stiffness and consistent loads on the same mesh,
+// with the supports applied as fem applies them. On that identical system it
+// times fem.BandLDL (Factorize + SolveTo), gonum's banded Cholesky
+// (lapack64.Pbtrf + Pbtrs), gonum's dense Cholesky up to a few thousand
+// unknowns, and one copy of the band array, the memory floor no factorization
+// of a band can beat. The two banded solutions are compared, in the diagonal
+// scaling that Cholesky's error bounds are stated in, against a tolerance
+// that grows with the estimated condition number.
+//
+// A pitfall row times mat.BandCholesky.Factorize, whose built-in condition
+// estimate grows quadratically with the number of unknowns, against Pbtrf.
+// Finally a request far beyond the machine's memory is sent to fem.Solve to
+// show that it is refused with an estimate instead of attempted.
+//
+// Every timing is the median of several repetitions; operations shorter than
+// Config.MinBatch are repeated in a batch and the batch time divided. Times
+// are wall-clock seconds on whatever else the machine is doing, so a report
+// states the number of cores and the Go version beside its numbers.
+//
+// Targets (ratios, the scaling exponent, bytes per element, the 1e6-element
+// beam end to end) are reported as PASS or FAIL; nothing here asserts them.
+package bench
