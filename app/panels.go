@@ -49,7 +49,6 @@ type controls struct {
 	panel       propertiesPanel
 	readout     *readout
 	checkList   *widget.List
-	summary     *widget.Label
 	checkDetail *widget.Label
 	elements    *widget.Entry
 	order       *widget.Select
@@ -95,8 +94,6 @@ func (w *Window) build() {
 
 	c.properties = container.NewVBox()
 	c.readout = newReadout()
-	c.summary = widget.NewLabel("")
-	c.summary.Wrapping = fyne.TextWrapWord
 	c.checkList = widget.NewList(
 		func() int { return len(w.checks) },
 		func() fyne.CanvasObject {
@@ -111,7 +108,7 @@ func (w *Window) build() {
 			l.Importance = r.importance
 			l.Refresh()
 		})
-	c.checkDetail = widget.NewLabel("Click a check to read it and see its place on the drawing.")
+	c.checkDetail = widget.NewLabel("")
 	c.checkDetail.Wrapping = fyne.TextWrapWord
 	c.checkList.OnSelected = func(i widget.ListItemID) {
 		if i < len(w.checks) {
@@ -124,7 +121,7 @@ func (w *Window) build() {
 		container.NewVScroll(c.properties),
 		container.NewVSplit(
 			container.NewBorder(heading("At the mouse"), nil, nil, nil, container.NewScroll(c.readout.grid)),
-			container.NewBorder(container.NewVBox(heading("Checks"), c.summary), minHeight(80, container.NewVScroll(c.checkDetail)), nil, nil, c.checkList)))
+			container.NewBorder(heading("Checks"), minHeight(90, container.NewVScroll(c.checkDetail)), nil, nil, c.checkList)))
 	side.SetOffset(0.3)
 
 	center := container.NewBorder(c.settingsBar(), c.layerBar(), nil, nil, w.draw)
@@ -339,7 +336,7 @@ func (w *Window) hoverChanged() {
 func (w *Window) selectCheck(r checkRow) {
 	w.highlight = r.span
 	if r.name == "" {
-		w.ui.checkDetail.SetText("")
+		w.ui.checkDetail.SetText(resultSummary(w.result, w.units) + "\nClick a check to read it and see its place on the drawing.")
 	} else {
 		w.ui.checkDetail.SetText(r.status + " — " + r.name + ": " + r.message)
 	}
@@ -349,8 +346,8 @@ func (w *Window) selectCheck(r checkRow) {
 // showResults refreshes everything that shows the newest analysis.
 func (c *controls) showResults() {
 	w := c.w
-	c.summary.SetText(resultSummary(w.result, w.units))
 	c.checkList.UnselectAll()
+	w.selectCheck(checkRow{})
 	c.checkList.Refresh()
 	c.showMagnification()
 	w.hoverChanged()
