@@ -66,7 +66,7 @@ func DefaultConfig() Config {
 func QuickConfig() Config {
 	return Config{
 		Elements:         []int{200, 400, 800},
-		ExponentFrom:     200,
+		ExponentFrom:     100,
 		DenseUnknowns:    []int{100, 200},
 		PitfallUnknowns:  []int{500, 1_000},
 		OversizeElements: 1_000_000_000,

@@ -1,0 +1,112 @@
+package bench
+
+import (
+	"bytes"
+	"encoding/json"
+	"strconv"
+	"strings"
+	"testing"
+)
+
+// TestQuickRun runs every part at small sizes and checks that the report
+// carries what the table and the JSON promise. It checks no timing.
+func TestQuickRun(t *testing.T) {
+	cfg := QuickConfig()
+	var progressLog bytes.Buffer
+	cfg.Progress = &progressLog
+	r, err := Run(cfg)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if progressLog.Len() == 0 {
+		t.Error("no progress was written")
+	}
+
+	var text bytes.Buffer
+	if err := r.WriteText(&text); err != nil {
+		t.Fatal(err)
+	}
+	t.Logf("\n%s", text.String())
+	lines := strings.Split(text.String(), "\n")
+	for _, header := range []string{"model  elements", "Pbtrf+Pbtrs", "ratio"} {
+		if !strings.Contains(text.String(), header) {
+			t.Errorf("the text report has no header with %q", header)
+		}
+	}
+	// One row per model and size in each of the two main tables.
+	for _, model := range []string{"bar", "beam"} {
+		for _, row := range r.Rows {
+			if row.Model != model {
+				continue
+			}
+			count := 0
+			for _, l := range lines {
+				f := strings.Fields(l)
+				if len(f) > 1 && f[0] == model && f[1] == strconv.Itoa(row.Elements) {
+					count++
+				}
+			}
+			if count != 2 {
+				t.Errorf("%s model, %d elements: %d text rows, want 2 (end to end and kernel)", model, row.Elements, count)
+			}
+		}
+	}
+	if got, want := len(r.Rows), 2*len(cfg.Elements); got != want {
+		t.Errorf("%d rows, want %d (two models × %d sizes)", got, want, len(cfg.Elements))
+	}
+
+	var js bytes.Buffer
+	if err := r.WriteJSON(&js); err != nil {
+		t.Fatal(err)
+	}
+	var decoded map[string]any
+	if err := json.Unmarshal(js.Bytes(), &decoded); err != nil {
+		t.Fatalf("the JSON report does not parse: %v", err)
+	}
+	keys := map[string]int{}
+	collectKeys(decoded, keys)
+	for _, want := range []string{
+		"ours_to_pbtrf_pbtrs_ratio", "ours_to_band_copy_ratio", "ours_to_dense_ratio",
+		"band_cholesky_to_pbtrf_ratio", "scaling_exponent", "elements", "total_seconds",
+		"peak_heap_bytes_per_element", "allocated_bytes_per_element", "cpus", "go_version",
+	} {
+		if keys[want] == 0 {
+			t.Errorf("the JSON report has no key %q", want)
+		}
+	}
+	if keys["scaling_exponent"] != len(benchModels) {
+		t.Errorf("%d scaling exponents, want one per model", keys["scaling_exponent"])
+	}
+
+	for _, row := range r.Rows {
+		if row.TotalSeconds <= 0 || row.OursSeconds <= 0 || row.GonumBandSeconds <= 0 || row.BandCopySeconds <= 0 || row.AllocatedBytesPerElement <= 0 {
+			t.Errorf("%s model, %d elements: a measurement is missing: %+v", row.Model, row.Elements, row)
+		}
+		// At these sizes the systems are well conditioned, so the two solvers must agree.
+		if ag := row.Agreement; !ag.Meaningful || !ag.Agree {
+			t.Errorf("%s model, %d elements: ours and Pbtrs differ by %.2g (tolerance %.2g, scaled condition %.2g)", row.Model, row.Elements, ag.Difference, ag.Tolerance, ag.Condition)
+		}
+	}
+	for _, d := range r.Dense {
+		if d.Difference > 1e-9 {
+			t.Errorf("%s system of %d unknowns: ours and the dense solver differ by %.2g", d.Model, d.Unknowns, d.Difference)
+		}
+	}
+	if o := r.Oversize; o == nil || !o.Refused || !strings.Contains(o.Message, "GB") {
+		t.Errorf("fem.Solve on %d elements should refuse with a memory estimate, got %+v", cfg.OversizeElements, o)
+	}
+}
+
+func collectKeys(v any, keys map[string]int) {
+	switch v := v.(type) {
+	case map[string]any:
+		for k, x := range v {
+			keys[k]++
+			collectKeys(x, keys)
+		}
+	case []any:
+		for _, x := range v {
+			collectKeys(x, keys)
+		}
+	}
+}
