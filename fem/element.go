@@ -108,35 +108,19 @@ func (d *elementData) beamStiffness() localMatrix {
 
 // beamLoads is the consistent nodal load vector ∫N·q dx.
 func (d *elementData) beamLoads() localVector {
-	var f localVector
-	h := d.length
-	for _, g := range gauss3 {
-		n, _, _, _ := hermite(g.xi, h)
-		q := d.transverseLoad[0] + (d.transverseLoad[1]-d.transverseLoad[0])*g.xi
-		for a := range n {
-			f[a] += g.w * h * n[a] * q
-		}
-	}
-	return f
+	return hermiteLoads(d.length, d.transverseLoad[0], d.transverseLoad[1])
 }
 
-// strainEnergy is ½∫EA(u' − αΔT)² dx + ½∫EI·w”² dx over the element, given
-// its bar and beam nodal values; both integrands are at most quadratic.
-func (d *elementData) strainEnergy(order ElementOrder, bar []float64, beam []float64) float64 {
-	h := d.length
-	e := 0.0
-	for _, g := range gauss3 {
-		_, dn := barShape(order, g.xi, h)
-		strain := -d.thermalStrain
-		for a := range order.nodes() {
-			strain += dn[a] * bar[a]
-		}
-		_, _, d2, _ := hermite(g.xi, h)
-		curvature := 0.0
-		for a := range d2 {
-			curvature += d2[a] * beam[a]
-		}
-		e += g.w * h * (d.axialRigidity*strain*strain + d.flexuralRigidity*curvature*curvature)
+// hermiteLoads is ∫N·q dx for the Hermite shape functions of an element of
+// length h under a load going linearly from q0 to q1: the fixed-end forces of
+// a trapezoidal load (h(7q0+3q1)/20, h²(3q0+2q1)/60, h(3q0+7q1)/20,
+// −h²(2q0+3q1)/60; beam fixed-end force tables, from memory; checked against
+// Gauss–Legendre quadrature in TestHermiteLoadsQuadrature).
+func hermiteLoads(h, q0, q1 float64) localVector {
+	return localVector{
+		h * (7*q0 + 3*q1) / 20,
+		h * h * (3*q0 + 2*q1) / 60,
+		h * (3*q0 + 7*q1) / 20,
+		-h * h * (2*q0 + 3*q1) / 60,
 	}
-	return 0.5 * e
 }

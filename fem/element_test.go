@@ -113,3 +113,24 @@ func TestBeamStiffnessEntries(t *testing.T) {
 		}
 	}
 }
+
+// strainEnergy is, by quadrature, ½∫EA(u' − αΔT)² dx + ½∫EI·w”² dx over the element, given
+// its bar and beam nodal values; both integrands are at most quadratic.
+func (d *elementData) strainEnergy(order ElementOrder, bar []float64, beam []float64) float64 {
+	h := d.length
+	e := 0.0
+	for _, g := range gauss3 {
+		_, dn := barShape(order, g.xi, h)
+		strain := -d.thermalStrain
+		for a := range order.nodes() {
+			strain += dn[a] * bar[a]
+		}
+		_, _, d2, _ := hermite(g.xi, h)
+		curvature := 0.0
+		for a := range d2 {
+			curvature += d2[a] * beam[a]
+		}
+		e += g.w * h * (d.axialRigidity*strain*strain + d.flexuralRigidity*curvature*curvature)
+	}
+	return 0.5 * e
+}

@@ -1,15 +1,12 @@
 package fem
 
-import (
-	"math"
-	"sort"
-)
+import "sort"
 
 // At evaluates the finite element fields at x from the interpolation of the
 // element that holds x. At a node, side picks the element to the Left or to
 // the Right (any other value means Right); x is clamped to [0, L].
 func (s *Solution) At(x float64, side Side) Fields {
-	if s == nil || len(s.elements) == 0 {
+	if s == nil || len(s.fields) == 0 {
 		return Fields{X: x}
 	}
 	return s.inElement(s.elementAt(x, side), x)
@@ -19,7 +16,7 @@ func (s *Solution) At(x float64, side Side) Fields {
 // the merge tolerance of a node count as that node.
 func (s *Solution) elementAt(x float64, side Side) int {
 	nodes := s.Mesh.X
-	last := len(s.elements) - 1
+	last := len(s.fields) - 1
 	tol := mergeTolerance * nodes[len(nodes)-1]
 	i := sort.SearchFloat64s(nodes, x) // first node >= x
 	switch {
@@ -44,11 +41,10 @@ func (s *Solution) Sample(n int) []Fields {
 		return nil
 	}
 	n = max(n, 1)
-	out := make([]Fields, 0, len(s.elements)*(n+1))
-	for e := range s.elements {
-		d := &s.elements[e]
+	out := make([]Fields, 0, len(s.fields)*(n+1))
+	for e, el := range s.Mesh.Elements {
 		for j := 0; j <= n; j++ {
-			x := d.start + d.length*float64(j)/float64(n)
+			x := el.Start + (el.End-el.Start)*float64(j)/float64(n)
 			if j == n {
 				x = s.Mesh.X[e+1] // exactly the node, free of round-off
 			}
@@ -58,40 +54,36 @@ func (s *Solution) Sample(n int) []Fields {
 	return out
 }
 
-// inElement evaluates the fields at x with element e's interpolation.
+// inElement evaluates the fields at x in element e. Displacements
+// interpolate the end values, so neighbouring elements agree at a node to
+// the bit; slopes, forces and moments come from the derivatives the
+// hierarchy carried down (hierarchy.go), free of the cancellation that
+// differencing nearly equal nodal values would bring on fine meshes.
 func (s *Solution) inElement(e int, x float64) Fields {
-	d := &s.elements[e]
-	xi := min(max((x-d.start)/d.length, 0), 1)
-	x = d.start + xi*d.length
+	el := s.Mesh.Elements[e]
+	sec := &s.sections[el.Segment]
+	h := el.End - el.Start
+	xi := min(max((x-el.Start)/h, 0), 1)
+	x = el.Start + xi*h
 	f := Fields{X: x}
+	a, b, g := s.Displacement[e], s.Displacement[e+1], s.fields[e]
 
-	n, dn := barShape(s.barOrder, xi, d.length)
-	first, count := barSystem{s.barOrder}.element(e)
-	strain := -d.thermalStrain
-	for a := range count {
-		f.AxialDisplacement += n[a] * s.bar[first+a]
-		strain += dn[a] * s.bar[first+a]
-	}
-	f.AxialForce = d.axialRigidity * strain
+	f.AxialDisplacement = (1-xi)*a[Axial] + xi*b[Axial] + 4*xi*(1-xi)*g.bubble
+	f.AxialForce = sec.axialRigidity * (g.slope + (4-8*xi)*g.bubble/h - sec.thermalStrain)
 
-	h, d1, d2, d3 := hermite(xi, d.length)
-	w := s.beam[2*e : 2*e+4]
-	var curvature, third float64
-	for a := range w {
-		f.Deflection += h[a] * w[a]
-		f.Rotation += d1[a] * w[a]
-		curvature += d2[a] * w[a]
-		third += d3[a] * w[a]
-	}
-	f.BendingMoment = d.flexuralRigidity * curvature
-	f.ShearForce = d.flexuralRigidity * third
+	n, _, _, _ := hermite(xi, h)
+	f.Deflection = n[0]*a[Transverse] + n[1]*a[Rotation] + n[2]*b[Transverse] + n[3]*b[Rotation]
+	d, rest := xi*h, (1-xi)*h
+	curvature := g.curvature + g.third*d
+	// θ from both ends, blended, so each end reproduces its nodal rotation.
+	fromStart := a[Rotation] + d*(g.curvature+g.third*d/2)
+	fromEnd := b[Rotation] - rest*(curvature+g.third*rest/2)
+	f.Rotation = (1-xi)*fromStart + xi*fromEnd
+	f.BendingMoment = sec.flexuralRigidity * curvature
+	f.ShearForce = sec.flexuralRigidity * g.third
 
-	f.AxialStress = f.AxialForce / d.area
-	f.BendingStress = f.BendingMoment * d.fibre / d.secondMoment
-	top, bottom := f.AxialStress-f.BendingStress, f.AxialStress+f.BendingStress
-	f.CombinedStress = bottom
-	if math.Abs(top) > math.Abs(bottom) {
-		f.CombinedStress = top
-	}
+	f.AxialStress = f.AxialForce / sec.area
+	f.BendingStress = f.BendingMoment * sec.fibre / sec.secondMoment
+	f.CombinedStress = extremeFibreStress(f.AxialStress, f.BendingStress)
 	return f
 }

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"math/bits"
 	"slices"
 )
 
@@ -15,24 +16,37 @@ type Solution struct {
 	Reactions    []Reaction   // one per support, in the order of Model.Supports
 	StrainEnergy float64      // energy stored in the member (springs excluded), J
 	Equilibrium  Equilibrium
-	// Condition is the estimated 1-norm condition number of the bar or beam
-	// stiffness matrix, whichever is larger, after symmetric scaling to a unit
-	// diagonal (the scaling does not change the factorization's accuracy but
-	// removes the artificial spread between deflection and rotation rows).
+	// Condition bounds how much round-off can grow in the results: relative
+	// errors up to about Condition·ε (ε = 2.2e-16) are possible in
+	// displacements, forces and moments. It is the larger estimated 1-norm
+	// condition number of the bar and beam key-point systems, the only ones
+	// solved by elimination, after symmetric scaling to a unit diagonal,
+	// plus a term for the levels of the hierarchical refinement (see
+	// hierarchy.go), each of which adds a few rounding errors.
 	Condition float64
 	Warnings  []string
 
-	elements []elementData
+	sections []sectionData // per segment of Model
 	barOrder ElementOrder
-	bar      []float64 // all bar unknowns, including quadratic middle nodes
-	beam     []float64 // w, θ per node
+	fields   []elementField // per element of Mesh
 }
 
-// conditionLimit is the condition number beyond which results are flagged.
-// Relative errors up to about cond·ε (ε = 2.2e-16) are possible; measured on
-// a cantilever with a tip load, 1000 Hermite elements (cond 1e13) gave 8e-5
-// and 30,000 elements (cond 2e17) gave 95 %.
+// sectionData is what the fields need from a segment.
+type sectionData struct {
+	axialRigidity, flexuralRigidity float64 // EA (N), EI (N·m²)
+	area, secondMoment, fibre       float64 // A (m²), I (m⁴), c (m)
+	thermalStrain                   float64 // α·ΔT
+}
+
+// conditionLimit is the condition number beyond which results are flagged:
+// relative errors of up to cond·ε, 2e-4 at the limit, may then show in the
+// last digits an engineer reads.
 const conditionLimit = 1e12
+
+// levelRoundOff is the growth of relative round-off per level of the
+// hierarchical refinement, a bound with margin over the largest measured
+// (TestFineBeamAccuracy: below 1 per level on the reference members).
+const levelRoundOff = 4
 
 // conditionWarning says how far results of a problem with condition number
 // cond can be trusted, or returns "" when they can.
@@ -40,9 +54,9 @@ func conditionWarning(problem string, cond float64) string {
 	const eps = 0x1p-52
 	switch {
 	case cond*eps >= 1:
-		return fmt.Sprintf("the %s stiffness matrix is singular to working precision (estimated condition number %.2g, beyond 1/ε of float64): the results are meaningless; use far fewer elements", problem, cond)
+		return fmt.Sprintf("the %s stiffness matrix is singular to working precision (estimated condition number %.2g, beyond 1/ε of float64): the results are meaningless; check for springs or sections of extreme stiffness, or supports and loads almost at one point", problem, cond)
 	case cond > conditionLimit:
-		return fmt.Sprintf("the %s stiffness matrix is ill-conditioned (estimated condition number %.2g): results are unreliable, with relative errors possibly up to %.0e; use fewer elements or avoid extreme stiffness contrasts", problem, cond, cond*eps)
+		return fmt.Sprintf("the %s stiffness matrix is ill-conditioned (estimated condition number %.2g): results are unreliable, with relative errors possibly up to %.0e; avoid extreme stiffness contrasts and supports or loads very close together", problem, cond, cond*eps)
 	}
 	return ""
 }
@@ -65,7 +79,9 @@ func Solve(m *Model) (*Solution, error) {
 }
 
 // SolveOnMesh solves the model on a given mesh, which must hold a node at
-// every key point (BuildMesh and MeshFromNodes make such meshes).
+// every key point (BuildMesh and MeshFromNodes make such meshes). The
+// key-point system is assembled and solved by BandLDL; the nodes between key
+// points follow from the hierarchical basis of hierarchy.go in O(n).
 func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
 	if err := m.Validate(); err != nil {
 		return nil, err
@@ -76,18 +92,27 @@ func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
 	if err := checkMechanism(m); err != nil {
 		return nil, err
 	}
-	s := &Solution{Model: copyModel(m), Mesh: mesh, barOrder: m.Mesh.BarOrder}
+	keys, err := keyNodes(m, mesh.X)
+	if err != nil {
+		return nil, err
+	}
+	s := &Solution{Model: copyModel(m), Mesh: mesh, barOrder: m.Mesh.BarOrder, sections: sectionTable(m)}
 	if s.barOrder == 0 {
 		s.barOrder = LinearBar
 	}
-	s.elements = elementTable(m, mesh)
-	problems := []system{barSystem{s.barOrder}, beamSystem{}}
+	keyX := make([]float64, len(keys))
+	for j, i := range keys {
+		keyX[j] = mesh.X[i]
+	}
+	coarse := meshOn(m, keyX)
+	stretches := elementTable(m, coarse)
 	s.Reactions = make([]Reaction, len(m.Supports))
 	for i, sup := range m.Supports {
 		s.Reactions[i] = Reaction{Support: i, X: sup.X}
 	}
-	for _, p := range problems {
-		u, cond, err := s.solveOne(p)
+	s.Displacement = make([][3]float64, len(mesh.X))
+	for _, p := range []system{barSystem{LinearBar}, beamSystem{}} {
+		u, cond, err := solveBanded(m, coarse, stretches, p, s.Reactions)
 		if err != nil {
 			return nil, err
 		}
@@ -95,23 +120,40 @@ func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
 		if w := conditionWarning(p.name(), cond); w != "" {
 			s.Warnings = append(s.Warnings, w)
 		}
-		if p.motions()[0] == Axial {
-			s.bar = u
-		} else {
-			s.beam = u
+		for j, i := range keys {
+			for mi, d := range p.motions() {
+				s.Displacement[i][d] = u[p.nodeDof(j, mi)]
+			}
 		}
 	}
-	s.Displacement = make([][3]float64, len(mesh.X))
-	bp := barSystem{s.barOrder}
-	for i := range mesh.X {
-		s.Displacement[i] = [3]float64{s.bar[bp.nodeDof(i, 0)], s.beam[2*i], s.beam[2*i+1]}
+	s.fields = make([]elementField, len(mesh.Elements))
+	r := stretchRefiner{x: mesh.X, disp: s.Displacement, fields: s.fields, order: s.barOrder}
+	depth := 0
+	for j := range stretches {
+		refineStretch(&r, &stretches[j], keys[j], keys[j+1])
+		depth = max(depth, bits.Len(uint(keys[j+1]-keys[j]-1)))
 	}
-	for e := range s.elements {
-		bo, nb := bp.element(e)
-		s.StrainEnergy += s.elements[e].strainEnergy(s.barOrder, s.bar[bo:bo+nb], s.beam[2*e:2*e+4])
-	}
+	s.StrainEnergy = 0.5 * r.energy
+	s.Condition += levelRoundOff * float64(depth)
 	s.Equilibrium = equilibrium(m, s.Reactions)
 	return s, nil
+}
+
+// sectionTable gathers the section data of every segment.
+func sectionTable(m *Model) []sectionData {
+	out := make([]sectionData, len(m.Segments))
+	for i, seg := range m.Segments {
+		sec, mat := seg.Section, seg.Material
+		out[i] = sectionData{
+			axialRigidity:    mat.Elastic * sec.Area,
+			flexuralRigidity: mat.Elastic * sec.SecondMoment,
+			area:             sec.Area,
+			secondMoment:     sec.SecondMoment,
+			fibre:            sec.FibreDistance,
+			thermalStrain:    mat.ThermalExpansion * m.TemperatureChange,
+		}
+	}
+	return out
 }
 
 // system is one of the two independent problems on the mesh.
@@ -149,16 +191,17 @@ func (beamSystem) local(d *elementData) (localMatrix, localVector) {
 	return d.beamStiffness(), d.beamLoads()
 }
 
-// solveOne assembles and solves one problem, fills its part of the
-// reactions and returns the unknowns and the condition estimate.
-func (s *Solution) solveOne(p system) ([]float64, float64, error) {
-	m, mesh := &s.Model, s.Mesh
-	n, kb := p.size(len(s.elements))
+// solveBanded assembles problem p on mesh (with element data els), solves
+// it by BandLDL, fills p's components of reactions and returns the unknowns
+// and the condition estimate of the scaled matrix. Solve uses it for the
+// key-point mesh; on a fine mesh it is the plain assembled solution.
+func solveBanded(m *Model, mesh Mesh, els []elementData, p system, reactions []Reaction) ([]float64, float64, error) {
+	n, kb := p.size(len(els))
 	a := NewSymBand(n, kb)
 	rhs := make([]float64, n)
-	for e := range s.elements {
+	for e := range els {
 		first, count := p.element(e)
-		k, f := p.local(&s.elements[e])
+		k, f := p.local(&els[e])
 		for i := range count {
 			rhs[first+i] += f[i]
 			for j := i; j < count; j++ {
@@ -220,7 +263,7 @@ func (s *Solution) solveOne(p system) ([]float64, float64, error) {
 	if err := f.Factorize(a); err != nil {
 		var pe *PivotError
 		if errors.As(err, &pe) {
-			return nil, 0, s.pivotMessage(p, pe)
+			return nil, 0, pivotMessage(mesh.X, p, pe)
 		}
 		return nil, 0, err
 	}
@@ -233,49 +276,48 @@ func (s *Solution) solveOne(p system) ([]float64, float64, error) {
 		scale[i] = 1 / math.Sqrt(a.Data[i*(kb+1)])
 	}
 	cond := f.Cond(a, scale)
-	s.reactions(p, u, point)
+	bandReactions(m, mesh, els, p, u, point, reactions)
 	return u, cond, nil
 }
 
 // pivotMessage turns a failed pivot into a message that names the place.
-func (s *Solution) pivotMessage(p system, pe *PivotError) error {
-	x := s.Mesh.X[len(s.Mesh.X)-1]
-	for node := range s.Mesh.X {
+func pivotMessage(nodes []float64, p system, pe *PivotError) error {
+	x := nodes[len(nodes)-1]
+	for node := range nodes {
 		if p.nodeDof(node, 0) >= pe.Row {
-			x = s.Mesh.X[node]
+			x = nodes[node]
 			break
 		}
 	}
-	return fmt.Errorf("the %s stiffness matrix is singular to working precision near x = %s (pivot %.3g of diagonal %.3g): check for very soft springs or very stiff contrasts, or use fewer elements", p.name(), fmtMetres(x), pe.Pivot, pe.Diagonal)
+	return fmt.Errorf("the %s stiffness matrix is singular to working precision near x = %s (pivot %.3g of diagonal %.3g): check for very soft springs, very stiff contrasts, or supports and loads almost at one point", p.name(), fmtMetres(x), pe.Pivot, pe.Diagonal)
 }
 
-// reactions fills this problem's components of the support reactions:
+// bandReactions fills this problem's components of the support reactions:
 // rigid restraints from the element end forces K·u − f at the node less the
 // point loads there, springs as −k·displacement.
-func (s *Solution) reactions(p system, u, point []float64) {
-	mesh := s.Mesh
-	for r, sup := range s.Model.Supports {
+func bandReactions(m *Model, mesh Mesh, els []elementData, p system, u, point []float64, reactions []Reaction) {
+	for r, sup := range m.Supports {
 		node := nearest(mesh.X, sup.X)
 		for mi, d := range p.motions() {
 			dof := p.nodeDof(node, mi)
 			switch {
 			case sup.Kind == Spring:
-				s.Reactions[r].Force[d] = -sup.Stiffness[d] * u[dof]
+				reactions[r].Force[d] = -sup.Stiffness[d] * u[dof]
 			case sup.Kind.Restrains(d):
 				force := -point[dof]
-				for e := max(node-1, 0); e <= min(node, len(s.elements)-1); e++ {
+				for e := max(node-1, 0); e <= min(node, len(els)-1); e++ {
 					first, count := p.element(e)
 					if dof < first || dof >= first+count {
 						continue
 					}
-					k, f := p.local(&s.elements[e])
+					k, f := p.local(&els[e])
 					a := dof - first
 					force -= f[a]
 					for b := range count {
 						force += k[a][b] * u[first+b]
 					}
 				}
-				s.Reactions[r].Force[d] = force
+				reactions[r].Force[d] = force
 			}
 		}
 	}
