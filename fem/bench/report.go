@@ -90,27 +90,44 @@ func (r *Report) endToEndTable(b *strings.Builder) {
 }
 
 func (r *Report) kernelTable(b *strings.Builder) {
-	if r.Rows[0].OursSeconds == 0 {
+	if r.Rows[0].BandCopySeconds == 0 {
 		return
 	}
 	b.WriteString("\nKernel on the identical assembled system: fem.BandLDL vs lapack64.Pbtrf+Pbtrs vs one copy of the band array\n")
 	header := []string{"model", "elements", "unknowns", "K", "ours f+s", "cond est", "Pbtrf+Pbtrs", "ratio",
 		fmt.Sprintf("≤ %.1f", targetGonumRatio), "band copy", "×copy", fmt.Sprintf("≤ %d", targetBandCopyRatio),
-		"scaled cond", "difference", "tolerance", "agree"}
+		"scaled cond", "ours diff", "fem diff", "tolerance", "agree"}
+	var failures []string
 	table(b, header, func(add func(...string)) {
 		for _, row := range r.Rows {
 			ag := row.Agreement
-			agree := passFail(ag.Agree)
-			if !ag.Meaningful {
-				agree = "n/a: cond ≥ 1/ε"
+			agree := verdict(ag.Tolerance, ag.Agree)
+			if ag.Tolerance >= 1 {
+				agree = "n/a"
 			}
-			add(row.Model, fmt.Sprint(row.Elements), fmt.Sprint(row.Unknowns), fmt.Sprint(row.HalfBandwidth),
+			cells := []string{row.Model, fmt.Sprint(row.Elements), fmt.Sprint(row.Unknowns), fmt.Sprint(row.HalfBandwidth),
 				seconds(row.OursSeconds), seconds(row.ConditionSeconds), seconds(row.GonumBandSeconds),
-				fmt.Sprintf("%.2f", row.OursToGonumRatio), passFail(row.OursToGonumPass),
-				seconds(row.BandCopySeconds), fmt.Sprintf("%.1f", row.OursToBandCopyRatio), passFail(row.OursToBandCopyPass),
-				fmt.Sprintf("%.1e", ag.Condition), fmt.Sprintf("%.1e", ag.Difference), fmt.Sprintf("%.1e", ag.Tolerance), agree)
+				number("%.2f", row.OursToGonumRatio), verdict(row.OursToGonumRatio, row.OursToGonumPass),
+				seconds(row.BandCopySeconds), number("%.1f", row.OursToBandCopyRatio), verdict(row.OursToBandCopyRatio, row.OursToBandCopyPass),
+				number("%.1e", ag.Condition), number("%.1e", ag.Difference), number("%.1e", ag.FemDifference), number("%.1e", ag.Tolerance), agree}
+			add(cells...)
+			for _, f := range row.KernelFailures {
+				failures = append(failures, fmt.Sprintf("  %s model, %d elements: %s", row.Model, row.Elements, f))
+			}
 		}
 	})
+	b.WriteString("agree: ours and fem's answer each within the tolerance 8(K+1)·cond·ε of Pbtrs's, in the diagonal scaling; n/a when that tolerance is ≥ 1\n")
+	if len(failures) > 0 {
+		b.WriteString("factorizations that refused the system:\n" + strings.Join(failures, "\n") + "\n")
+	}
+}
+
+// number formats v, or "-" when it was not measured (zero).
+func number(format string, v float64) string {
+	if v == 0 {
+		return "-"
+	}
+	return fmt.Sprintf(format, v)
 }
 
 // table writes aligned columns under header; fill adds the rows.
@@ -133,6 +150,14 @@ func seconds(s float64) string {
 		return fmt.Sprintf("%.3g ms", s*1e3)
 	}
 	return fmt.Sprintf("%.3g µs", s*1e6)
+}
+
+// verdict is passFail for a measured value, "-" when it was not measured.
+func verdict(measured float64, ok bool) string {
+	if measured == 0 {
+		return "-"
+	}
+	return passFail(ok)
 }
 
 func passFail(ok bool) string {
