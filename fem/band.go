@@ -111,15 +111,18 @@ func (f *BandLDL) Factorize(a *SymBand) error {
 		f.f = make([]float64, n*w)
 	}
 	f.f = f.f[:n*w]
-	copy(f.f, a.Data[:n*w])
 	d, orig := f.f, a.Data
 	from := 0
 	var err error
+	// The unrolled kernels read a and write the factor in one pass; the
+	// general loop works in place on a copy.
 	switch k {
 	case 1:
 		from, err = factorBand1(d, orig, n)
 	case 3:
 		from, err = factorBand3(d, orig, n)
+	default:
+		copy(d, orig[:n*w])
 	}
 	if err == nil {
 		err = factorRows(d, orig, n, k, from)
@@ -167,43 +170,64 @@ func factorRows(d, orig []float64, n, k, from int) error {
 }
 
 // factorBand1 eliminates the rows of a half-bandwidth-1 matrix that have a
-// full band below them and returns the first row left to factorRows.
+// full band below them, reading orig and writing the factor to d, and
+// returns the first row left to factorRows, with the rows from there on
+// copied to d with their pending updates.
 func factorBand1(d, orig []float64, n int) (int, error) {
+	var p0 float64 // update pending for the diagonal of row i
 	i := 0
 	for ; i+1 < n; i++ {
-		r := d[2*i : 2*i+4 : 2*i+4]
-		piv := r[0]
-		if !pivotOK(piv, orig[2*i]) {
-			return i, &PivotError{Row: i, Pivot: piv, Diagonal: orig[2*i]}
+		o := orig[2*i : 2*i+2 : 2*i+2]
+		piv := o[0] + p0
+		if !pivotOK(piv, o[0]) {
+			return i, &PivotError{Row: i, Pivot: piv, Diagonal: o[0]}
 		}
 		inv := 1 / piv
-		a1 := r[1]
+		a1 := o[1]
 		l1 := a1 * inv
-		r[2] -= l1 * a1
+		p0 = -l1 * a1
+		r := d[2*i : 2*i+2 : 2*i+2]
 		r[0], r[1] = inv, l1
+	}
+	if i < n {
+		copy(d[2*i:], orig[2*i:2*n])
+		d[2*i] += p0
 	}
 	return i, nil
 }
 
-// factorBand3 is factorBand1 for half-bandwidth 3.
+// factorBand3 is factorBand1 for half-bandwidth 3. The updates row i makes
+// to rows i+1..i+3 are carried in registers, not stored and reloaded.
 func factorBand3(d, orig []float64, n int) (int, error) {
+	// Pending updates: row i (entries 0-2), row i+1 (0-1), row i+2 (0).
+	var p0, p1, p2, q0, q1, s0 float64
 	i := 0
 	for ; i+3 < n; i++ {
-		r := d[4*i : 4*i+16 : 4*i+16]
-		piv := r[0]
-		if !pivotOK(piv, orig[4*i]) {
-			return i, &PivotError{Row: i, Pivot: piv, Diagonal: orig[4*i]}
+		o := orig[4*i : 4*i+4 : 4*i+4]
+		piv := o[0] + p0
+		if !pivotOK(piv, o[0]) {
+			return i, &PivotError{Row: i, Pivot: piv, Diagonal: o[0]}
 		}
+		a1, a2, a3 := o[1]+p1, o[2]+p2, o[3]
+		// a1² is ready before the division ends: the next pivot waits for
+		// one multiplication after it, not two.
+		a11 := a1 * a1
 		inv := 1 / piv
-		a1, a2, a3 := r[1], r[2], r[3]
 		l1, l2, l3 := a1*inv, a2*inv, a3*inv
-		r[4] -= l1 * a1
-		r[5] -= l1 * a2
-		r[6] -= l1 * a3
-		r[8] -= l2 * a2
-		r[9] -= l2 * a3
-		r[12] -= l3 * a3
+		p0, p1, p2 = q0-a11*inv, q1-l1*a2, -l1*a3
+		q0, q1 = s0-l2*a2, -l2*a3
+		s0 = -l3 * a3
+		r := d[4*i : 4*i+4 : 4*i+4]
 		r[0], r[1], r[2], r[3] = inv, l1, l2, l3
+	}
+	if i < n {
+		copy(d[4*i:], orig[4*i:4*n])
+		pending := [...]struct{ row, entry int }{{0, 0}, {0, 1}, {0, 2}, {1, 0}, {1, 1}, {2, 0}}
+		for j, v := range [...]float64{p0, p1, p2, q0, q1, s0} {
+			if row := i + pending[j].row; row < n {
+				d[4*row+pending[j].entry] += v
+			}
+		}
 	}
 	return i, nil
 }
@@ -215,9 +239,10 @@ func (f *BandLDL) SolveTo(dst, b []float64) error {
 	if len(dst) != n || len(b) != n {
 		return fmt.Errorf("fem: solve with vectors of length %d and %d for a factorization of order %d", len(dst), len(b), n)
 	}
-	copy(dst, b)
 	d, x := f.f, dst
-	// Rows below tail have a full band under them and take the unrolled kernels.
+	// Rows below tail have a full band under them and take the unrolled
+	// kernels, which read b as they go and carry the updates of the next
+	// rows in registers; the rest is done in place on x.
 	tail := 0
 	if k == 1 || k == 3 {
 		tail = max(n-k, 0)
@@ -225,23 +250,33 @@ func (f *BandLDL) SolveTo(dst, b []float64) error {
 	// Uᵀ·y = b and z = D⁻¹·y, by columns of U.
 	switch k {
 	case 1:
+		var p0 float64
 		for i := range tail {
 			r := d[2*i : 2*i+2 : 2*i+2]
-			xs := x[i : i+2 : i+2]
-			y := xs[0]
-			xs[1] -= r[1] * y
-			xs[0] = y * r[0]
+			y := b[i] + p0
+			p0 = -r[1] * y
+			x[i] = y * r[0]
+		}
+		copy(x[tail:], b[tail:])
+		if tail < n {
+			x[tail] += p0
 		}
 	case 3:
+		var p0, p1, p2 float64
 		for i := range tail {
 			r := d[4*i : 4*i+4 : 4*i+4]
-			xs := x[i : i+4 : i+4]
-			y := xs[0]
-			xs[1] -= r[1] * y
-			xs[2] -= r[2] * y
-			xs[3] -= r[3] * y
-			xs[0] = y * r[0]
+			y := b[i] + p0
+			p0, p1, p2 = p1-r[1]*y, p2-r[2]*y, -r[3]*y
+			x[i] = y * r[0]
 		}
+		copy(x[tail:], b[tail:])
+		for j, v := range [...]float64{p0, p1, p2} {
+			if tail+j < n {
+				x[tail+j] += v
+			}
+		}
+	default:
+		copy(x, b)
 	}
 	w := k + 1
 	for i := tail; i < n; i++ {
@@ -265,16 +300,21 @@ func (f *BandLDL) SolveTo(dst, b []float64) error {
 	}
 	switch k {
 	case 1:
-		for i := tail - 1; i >= 0; i-- {
-			r := d[2*i : 2*i+2 : 2*i+2]
-			xs := x[i : i+2 : i+2]
-			xs[0] -= r[1] * xs[1]
+		if tail > 0 {
+			x1 := x[tail]
+			for i := tail - 1; i >= 0; i-- {
+				x1 = x[i] - d[2*i+1]*x1
+				x[i] = x1
+			}
 		}
 	case 3:
-		for i := tail - 1; i >= 0; i-- {
-			r := d[4*i : 4*i+4 : 4*i+4]
-			xs := x[i : i+4 : i+4]
-			xs[0] -= r[1]*xs[1] + r[2]*xs[2] + r[3]*xs[3]
+		if tail > 0 {
+			x1, x2, x3 := x[tail], x[tail+1], x[tail+2]
+			for i := tail - 1; i >= 0; i-- {
+				r := d[4*i : 4*i+4 : 4*i+4]
+				x1, x2, x3 = x[i]-r[3]*x3-r[2]*x2-r[1]*x1, x1, x2
+				x[i] = x1
+			}
 		}
 	}
 	return nil
