@@ -39,13 +39,13 @@ type System struct {
 	B       []float64
 }
 
-// Assemble builds the problem's stiffness matrix and load vector on mesh the
-// way fem does, so its kernels can be timed on the same system SolveOnMesh
-// factorizes: linear bar or Hermite beam elements, consistent loads from
-// piecewise-linear distributed loads, self-weight and temperature, point
-// loads and springs at the nearest node, and rigid restraints applied by
-// clearing their row and column but keeping the diagonal. It handles linear
-// bars and zero settlements only, which is all the benchmark models use.
+// Assemble builds the problem's fine-mesh stiffness matrix and load vector,
+// the system whose solution is fem's finite element answer on mesh: linear
+// bar or Hermite beam elements, consistent loads from piecewise-linear
+// distributed loads, self-weight and temperature, point loads and springs at
+// the nearest node, and rigid restraints applied by clearing their row and
+// column but keeping the diagonal. It handles linear bars and zero
+// settlements only, which is all the benchmark models use.
 func Assemble(m *fem.Model, mesh fem.Mesh, p Problem) (*System, error) {
 	if m.Mesh.BarOrder == fem.QuadraticBar {
 		return nil, fmt.Errorf("bench: Assemble handles linear bars only; set Mesh.BarOrder to LinearBar")
