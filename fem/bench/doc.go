@@ -8,8 +8,9 @@
 // requested number of elements, Run times, as separate parts:
 //
 //   - mesh: fem.BuildMesh;
-//   - solve: fem.SolveOnMesh (validation, element table, banded assembly,
-//     factorization, solve, condition estimate, reactions, equilibrium);
+//   - solve: fem.SolveOnMesh, the bar and the beam problem (validation, the
+//     key-point systems, the hierarchical refinement between key points,
+//     reactions, equilibrium, condition estimate);
 //   - fields: fem.Summarize (a sampling pass over every element for the
 //     extremes of the fields, plus the reactions);
 //
