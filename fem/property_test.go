@@ -87,14 +87,11 @@ func reactionComponents(rs []fem.Reaction, d fem.Dof) []float64 {
 	return v
 }
 
-// reactionFloor is the size a reaction component may reach under the model's
-// loads: the total load, times L for moments.
-func reactionFloor(m *fem.Model, d fem.Dof) float64 {
-	s := scalesOf(m)
-	if d == fem.Rotation {
-		return s.force * s.length
-	}
-	return s.force
+// reactionFloor is the size below which a reaction component of s is
+// round-off: the total load (times L for moments), or the end-action terms
+// of an element, which a reaction sums, when larger (see nodeFloor).
+func reactionFloor(s *fem.Solution, d fem.Dof) float64 {
+	return nodeFloor(s, [...]quantity{axialForce, shearForce, bendingMoment}[d])
 }
 
 // forRandomModels runs check on propertyModels random models, each in a
@@ -124,33 +121,55 @@ func mustSolveModel(t *testing.T, m *fem.Model) *fem.Solution {
 	return s
 }
 
-// stiffnessTerms bounds the magnitudes of the terms K·u that the nodal
-// equations sum, per equilibrium component, for the intervals between the
-// points x (the elements of a mesh, or the stretches of the exact solution)
-// with the motions read from field: the stiffness row sums (linear bar
-// 2EA/h, quadratic bar 16EA/3h, Hermite beam 24EI/h³ and 12EI/h² for forces,
-// 12EI/h² and 6EI/h for moments) times the largest motion at the interval's
-// ends and middle, plus the thermal end forces. Sums of terms this large
-// carry round-off of ε times their size, whatever they sum to.
+// intervalTerms bounds the magnitudes of the terms K·u that the end actions
+// of the interval [a, b] sum (an element of a mesh, or a stretch of the exact
+// solution), with the motions read from field: the stiffness row sums
+// (linear bar 2EA/h, quadratic bar 16EA/3h, Hermite beam 24EI/h³ and 12EI/h²
+// for forces, 12EI/h² and 6EI/h for moments) times the largest motion at the
+// interval's ends and middle, plus the thermal end forces. Sums of terms this
+// large carry round-off of ε times their size, whatever they sum to.
+func intervalTerms(m *fem.Model, a, b float64, field fem.Field) (axial, force, moment float64) {
+	h := b - a
+	seg := m.Segments[m.SegmentAt(0.5*(a+b))]
+	ea, ei := seg.Material.Elastic*seg.Section.Area, seg.Material.Elastic*seg.Section.SecondMoment
+	var u, w, theta float64
+	for _, f := range []fem.Fields{field.At(a, fem.Right), field.At(0.5*(a+b), fem.Right), field.At(b, fem.Left)} {
+		u = math.Max(u, math.Abs(f.AxialDisplacement))
+		w = math.Max(w, math.Abs(f.Deflection))
+		theta = math.Max(theta, math.Abs(f.Rotation))
+	}
+	axial = 16*ea/(3*h)*u + 2*ea*math.Abs(seg.Material.ThermalExpansion*m.TemperatureChange)
+	force = 24*ei/(h*h*h)*w + 12*ei/(h*h)*theta
+	moment = 12*ei/(h*h)*w + 6*ei/h*theta
+	return axial, force, moment
+}
+
+// stiffnessTerms sums intervalTerms over the intervals between the points x
+// per equilibrium component (moments about x = 0).
 func stiffnessTerms(m *fem.Model, x []float64, field fem.Field) [3]float64 {
 	var t [3]float64
 	for i := 1; i < len(x); i++ {
-		a, b := x[i-1], x[i]
-		h := b - a
-		seg := m.Segments[m.SegmentAt(0.5*(a+b))]
-		ea, ei := seg.Material.Elastic*seg.Section.Area, seg.Material.Elastic*seg.Section.SecondMoment
-		var u, w, theta float64
-		for _, f := range []fem.Fields{field.At(a, fem.Right), field.At(0.5*(a+b), fem.Right), field.At(b, fem.Left)} {
-			u = math.Max(u, math.Abs(f.AxialDisplacement))
-			w = math.Max(w, math.Abs(f.Deflection))
-			theta = math.Max(theta, math.Abs(f.Rotation))
-		}
-		t[0] += 16*ea/(3*h)*u + 2*ea*math.Abs(seg.Material.ThermalExpansion*m.TemperatureChange)
-		force := 24*ei/(h*h*h)*w + 12*ei/(h*h)*theta
+		axial, force, moment := intervalTerms(m, x[i-1], x[i], field)
+		t[0] += axial
 		t[1] += force
-		t[2] += 12*ei/(h*h)*w + 6*ei/h*theta + b*force
+		t[2] += moment + x[i]*force
 	}
 	return t
+}
+
+// nodeFloor is the size below which a nodal value of q is round-off: for
+// displacements the size the loads give them (scalesOf); for forces, which
+// sum the end-action terms of an element, also the largest such terms.
+func nodeFloor(s *fem.Solution, q quantity) float64 {
+	floor := scalesOf(&s.Model).of(q)
+	if q.nodallyExact() {
+		return floor
+	}
+	for _, e := range s.Mesh.Elements {
+		axial, force, moment := intervalTerms(&s.Model, e.Start, e.End, s)
+		floor = math.Max(floor, [...]float64{axialForce: axial, shearForce: force, bendingMoment: moment}[q])
+	}
+	return floor
 }
 
 // balanceScale is the size of the terms whose sum is each equilibrium
@@ -254,21 +273,20 @@ func TestPropertySuperposition(t *testing.T) {
 			parts[i] = s
 		}
 		tol := solveTolerance(both.Condition)
-		scales := scalesOf(m)
 		for _, q := range nodeQuantities {
 			va, vb := nodeValues(parts[0], q), nodeValues(parts[1], q)
 			sum := make([]float64, len(va))
 			for i := range sum {
 				sum[i] = va[i] + vb[i]
 			}
-			h.check(t, q.String()+" at the nodes", sum, nodeValues(both, q), scales.of(q), tol)
+			h.check(t, q.String()+" at the nodes", sum, nodeValues(both, q), nodeFloor(both, q), tol)
 		}
 		for d := fem.Axial; d <= fem.Rotation; d++ {
 			ra, rb := reactionComponents(parts[0].Reactions, d), reactionComponents(parts[1].Reactions, d)
 			for i := range ra {
 				ra[i] += rb[i]
 			}
-			h.check(t, d.String()+" reactions", ra, reactionComponents(both.Reactions, d), reactionFloor(m, d), tol)
+			h.check(t, d.String()+" reactions", ra, reactionComponents(both.Reactions, d), reactionFloor(both, d), tol)
 		}
 	})
 	t.Logf("largest discrepancy: %.3g of its tolerance", h.worst)
@@ -320,7 +338,6 @@ func TestPropertyMirrorSymmetry(t *testing.T) {
 			t.Fatalf("the mirrored model has %d nodes, the original %d", len(r.Mesh.X), len(s.Mesh.X))
 		}
 		tol := solveTolerance(math.Max(s.Condition, r.Condition))
-		scales := scalesOf(m)
 		for _, q := range nodeQuantities {
 			// Node i seen from the left is mirrored node n−i seen from the right.
 			want := nodeValues(r, q)
@@ -328,14 +345,14 @@ func TestPropertyMirrorSymmetry(t *testing.T) {
 			for i := range want {
 				want[i] *= mirrorSign[q]
 			}
-			h.check(t, q.String()+" at mirrored nodes", nodeValues(s, q), want, scales.of(q), tol)
+			h.check(t, q.String()+" at mirrored nodes", nodeValues(s, q), want, nodeFloor(s, q), tol)
 		}
 		for d, sign := range [3]float64{-1, 1, -1} {
 			want := reactionComponents(r.Reactions, fem.Dof(d))
 			for i := range want {
 				want[i] *= sign
 			}
-			h.check(t, fem.Dof(d).String()+" reactions", reactionComponents(s.Reactions, fem.Dof(d)), want, reactionFloor(m, fem.Dof(d)), tol)
+			h.check(t, fem.Dof(d).String()+" reactions", reactionComponents(s.Reactions, fem.Dof(d)), want, reactionFloor(s, fem.Dof(d)), tol)
 		}
 	})
 	t.Logf("largest discrepancy: %.3g of its tolerance", h.worst)
@@ -362,7 +379,6 @@ func TestPropertyStiffnessScaling(t *testing.T) {
 		}
 		s, r := mustSolveModel(t, m), mustSolveModel(t, stiff)
 		tol := solveTolerance(math.Max(s.Condition, r.Condition))
-		scales := scalesOf(m)
 		for _, q := range nodeQuantities {
 			got := nodeValues(r, q)
 			if q.nodallyExact() { // the displacements
@@ -370,10 +386,10 @@ func TestPropertyStiffnessScaling(t *testing.T) {
 					got[i] *= k
 				}
 			}
-			h.check(t, fmt.Sprintf("%s with E×%.4g", q, k), got, nodeValues(s, q), scales.of(q), tol)
+			h.check(t, fmt.Sprintf("%s with E×%.4g", q, k), got, nodeValues(s, q), nodeFloor(s, q), tol)
 		}
 		for d := fem.Axial; d <= fem.Rotation; d++ {
-			h.check(t, d.String()+" reactions", reactionComponents(r.Reactions, d), reactionComponents(s.Reactions, d), reactionFloor(m, d), tol)
+			h.check(t, d.String()+" reactions", reactionComponents(r.Reactions, d), reactionComponents(s.Reactions, d), reactionFloor(s, d), tol)
 		}
 	})
 	t.Logf("largest discrepancy: %.3g of its tolerance", h.worst)
@@ -475,7 +491,7 @@ func TestPropertyReactionsMatchExact(t *testing.T) {
 			t.Fatalf("%d exact reactions, %d finite element ones", len(exact), len(s.Reactions))
 		}
 		for d := fem.Axial; d <= fem.Rotation; d++ {
-			h.check(t, d.String()+" reactions", reactionComponents(s.Reactions, d), reactionComponents(exact, d), reactionFloor(m, d), solveTolerance(s.Condition))
+			h.check(t, d.String()+" reactions", reactionComponents(s.Reactions, d), reactionComponents(exact, d), reactionFloor(s, d), solveTolerance(s.Condition))
 		}
 	})
 	t.Logf("largest discrepancy: %.3g of its tolerance", h.worst)
@@ -550,7 +566,7 @@ func judgeAgainstExact(t *testing.T, m *fem.Model, s *fem.Solution) {
 		h.check(t, q.String()+" at the nodes against the exact solution", got[d], exact[d], scales.of(q), tol)
 	}
 	for d := fem.Axial; d <= fem.Rotation; d++ {
-		h.check(t, d.String()+" reactions against the exact ones", reactionComponents(s.Reactions, d), reactionComponents(ex.Reactions(), d), reactionFloor(m, d), tol)
+		h.check(t, d.String()+" reactions against the exact ones", reactionComponents(s.Reactions, d), reactionComponents(ex.Reactions(), d), reactionFloor(s, d), tol)
 	}
 	if r := fem.Summarize(s, nil).Equilibrium.Relative; !(r <= tol) {
 		t.Errorf("loads and reactions leave a relative residual of %.3g (allowed %.3g) with no warning", r, tol)
