@@ -33,12 +33,13 @@ func (e *ValidationError) Error() string {
 	return b.String()
 }
 
-// Memory limits for a mesh request. Solve allocates about 520 (linear bar) to
-// 650 (quadratic bar) bytes per element (TestBytesPerElement); the margin
-// covers sampling the fields and the copies a caller keeps.
+// Memory limits for a mesh request. Solve allocates about 100 bytes per
+// element and Summarize's sampling about 160 more (TestBytesPerElement); the
+// rest of the margin covers a second solution a caller keeps while the next
+// one is solved.
 const (
 	memoryLimit     = 8 << 30 // bytes
-	bytesPerElement = 1200
+	bytesPerElement = 400
 )
 
 // mergeTolerance is the distance, relative to L, below which key points are one node.

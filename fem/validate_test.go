@@ -67,7 +67,7 @@ func TestValidate(t *testing.T) {
 		{"negative element count", func(m *Model) { m.Mesh.Elements = -3 }, "mesh", -1, "elements", "the mesh asks for -3 elements"},
 		{"negative element length", func(m *Model) { m.Mesh.MaxElementLength = -0.1 }, "mesh", -1, "max element length", "maximum element length is -0.1 m"},
 		{"bad bar order", func(m *Model) { m.Mesh.BarOrder = 3 }, "mesh", -1, "bar order", "the bar element order is 3"},
-		{"too many elements", func(m *Model) { m.Mesh.Elements = 2_000_000_000 }, "mesh", -1, "elements", "the mesh would need about 2400.0 GB"},
+		{"too many elements", func(m *Model) { m.Mesh.Elements = 2_000_000_000 }, "mesh", -1, "elements", "the mesh would need about 800.0 GB"},
 		{"too short elements", func(m *Model) { m.Mesh.MaxElementLength = 1e-9 }, "mesh", -1, "elements", "ask for fewer elements or a longer maximum element length"},
 	}
 	if err := validModel().Validate(); err != nil {

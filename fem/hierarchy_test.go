@@ -1,0 +1,209 @@
+package fem
+
+import (
+	"fmt"
+	"math"
+	"testing"
+)
+
+// assembled is the plain finite element solution of m on mesh: the fine
+// stiffness matrix assembled and eliminated by BandLDL, the way Solve worked
+// before the hierarchical basis. It is exact in exact arithmetic, so on small
+// meshes, where its round-off is small, both must agree to round-off.
+type assembled struct {
+	bar, beam []float64 // all unknowns, quadratic middle nodes included
+	reactions []Reaction
+	cond      float64
+}
+
+func solveAssembled(t *testing.T, m *Model, mesh Mesh) assembled {
+	t.Helper()
+	order := m.Mesh.BarOrder
+	if order == 0 {
+		order = LinearBar
+	}
+	els := elementTable(m, mesh)
+	out := assembled{reactions: make([]Reaction, len(m.Supports))}
+	for i, sup := range m.Supports {
+		out.reactions[i] = Reaction{Support: i, X: sup.X}
+	}
+	for _, p := range []system{barSystem{order}, beamSystem{}} {
+		u, cond, err := solveBanded(m, mesh, els, p, out.reactions)
+		if err != nil {
+			t.Fatalf("assembled solve: %v", err)
+		}
+		out.cond = max(out.cond, cond)
+		if p.name() == "bar" {
+			out.bar = u
+		} else {
+			out.beam = u
+		}
+	}
+	return out
+}
+
+// largest is max |v|, at least tiny so it can divide.
+func largest(v []float64) float64 {
+	m := 1e-300
+	for _, x := range v {
+		m = max(m, math.Abs(x))
+	}
+	return m
+}
+
+// everyOther returns v[from], v[from+2], ...
+func everyOther(v []float64, from int) []float64 {
+	var out []float64
+	for i := from; i < len(v); i += 2 {
+		out = append(out, v[i])
+	}
+	return out
+}
+
+// TestHierarchyMatchesAssembled compares the hierarchical solution with the
+// assembled one on uniform and graded meshes of a model with every kind of
+// load, support and section change: nodal values, reactions, the quadratic
+// bars' middle nodes, and the moments and shear forces inside the elements.
+func TestHierarchyMatchesAssembled(t *testing.T) {
+	graded := func(t *testing.T, m *Model, n int) Mesh {
+		x := make([]float64, n+1)
+		for i := range x {
+			r := float64(i) / float64(n)
+			x[i] = m.Length() * r * r * r
+		}
+		mesh, err := MeshFromNodes(m, x)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return mesh
+	}
+	uniform := func(t *testing.T, m *Model, n int) Mesh {
+		m.Mesh.Elements = n
+		mesh, err := BuildMesh(m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return mesh
+	}
+	for _, order := range []ElementOrder{LinearBar, QuadraticBar} {
+		for _, mk := range []struct {
+			name string
+			mesh func(*testing.T, *Model, int) Mesh
+		}{{"uniform", uniform}, {"graded", graded}} {
+			for _, n := range []int{1, 7, 40} {
+				t.Run(fmt.Sprintf("order %d, %s, %d elements", order, mk.name, n), func(t *testing.T) {
+					m := mixedModel(0)
+					m.Mesh.BarOrder = order
+					mesh := mk.mesh(t, m, n)
+					s, err := SolveOnMesh(m, mesh)
+					if err != nil {
+						t.Fatal(err)
+					}
+					ref := solveAssembled(t, m, mesh)
+					// Round-off of the assembled solve, or 1e-12 when smaller.
+					tol := max(1e-12, ref.cond*0x1p-52)
+					t.Logf("tolerance %.2g", tol)
+					stride := order.nodes() - 1
+					scale := [3]float64{largest(ref.bar), largest(everyOther(ref.beam, 0)), largest(everyOther(ref.beam, 1))}
+					for i, d := range s.Displacement {
+						want := [3]float64{ref.bar[stride*i], ref.beam[2*i], ref.beam[2*i+1]}
+						for k := range d {
+							if math.Abs(d[k]-want[k]) > tol*scale[k] {
+								t.Fatalf("node %d (x = %g), %s: hierarchical %.15g, assembled %.15g", i, mesh.X[i], Dof(k), d[k], want[k])
+							}
+						}
+					}
+					var forces []float64
+					for _, r := range ref.reactions {
+						forces = append(forces, r.Force[:]...)
+					}
+					for i, r := range s.Reactions {
+						for k, v := range r.Force {
+							if want := ref.reactions[i].Force[k]; math.Abs(v-want) > tol*largest(forces) {
+								t.Errorf("reaction %d, %s: hierarchical %.15g, assembled %.15g", i+1, Dof(k), v, want)
+							}
+						}
+					}
+					var moment, shear, axial, mid []float64
+					var moments, shears, axials, mids []float64
+					for e, el := range mesh.Elements {
+						h := el.End - el.Start
+						d := elementData{length: h}
+						_, _, d2, d3 := hermite(0.5, h)
+						ei := s.sections[el.Segment].flexuralRigidity
+						ea := s.sections[el.Segment].axialRigidity
+						var curvature, third float64
+						for a := range 4 {
+							curvature += d2[a] * ref.beam[2*e+a]
+							third += d3[a] * ref.beam[2*e+a]
+						}
+						_, dn := barShape(order, 0.5, d.length)
+						strain := -s.sections[el.Segment].thermalStrain
+						for a := range order.nodes() {
+							strain += dn[a] * ref.bar[stride*e+a]
+						}
+						f := s.At(0.5*(el.Start+el.End), Right)
+						moment, moments = append(moment, f.BendingMoment), append(moments, ei*curvature)
+						shear, shears = append(shear, f.ShearForce), append(shears, ei*third)
+						axial, axials = append(axial, f.AxialForce), append(axials, ea*strain)
+						if order == QuadraticBar {
+							mid, mids = append(mid, f.AxialDisplacement), append(mids, ref.bar[stride*e+1])
+						}
+					}
+					for _, c := range []struct {
+						name      string
+						got, want []float64
+					}{{"bending moment", moment, moments}, {"shear force", shear, shears}, {"axial force", axial, axials}, {"middle node", mid, mids}} {
+						for e := range c.got {
+							// Fields lose up to n² more to cancellation in the assembled reference.
+							if math.Abs(c.got[e]-c.want[e]) > 1e3*tol*largest(c.want) {
+								t.Errorf("%s in element %d: hierarchical %.15g, assembled %.15g", c.name, e+1, c.got[e], c.want[e])
+							}
+						}
+					}
+				})
+			}
+		}
+	}
+}
+
+// The closed-form Hermite load vector against 3-point Gauss–Legendre
+// quadrature of ∫N·q, exact for a cubic times a linear load.
+func TestHermiteLoadsQuadrature(t *testing.T) {
+	for _, c := range []struct{ h, q0, q1 float64 }{{1, 1, 1}, {2.5, -3e3, 7e3}, {1e-4, 5, -2}} {
+		var want localVector
+		for _, g := range gauss3 {
+			n, _, _, _ := hermite(g.xi, c.h)
+			q := c.q0 + (c.q1-c.q0)*g.xi
+			for a := range n {
+				want[a] += g.w * c.h * n[a] * q
+			}
+		}
+		got := hermiteLoads(c.h, c.q0, c.q1)
+		for a := range want {
+			if math.Abs(got[a]-want[a]) > 1e-14*largest(want[:]) {
+				t.Errorf("h = %g, q = %g..%g: entry %d closed form %.15g, quadrature %.15g", c.h, c.q0, c.q1, a, got[a], want[a])
+			}
+		}
+	}
+}
+
+// Strain energy from the hierarchy equals ½uᵀKu of the assembled solution
+// (springs excluded) summed by element quadrature.
+func TestHierarchyStrainEnergy(t *testing.T) {
+	for _, order := range []ElementOrder{LinearBar, QuadraticBar} {
+		m := mixedModel(30)
+		m.Mesh.BarOrder = order
+		s := mustSolve(t, m)
+		ref := solveAssembled(t, m, s.Mesh)
+		els := elementTable(m, s.Mesh)
+		stride := order.nodes() - 1
+		want := 0.0
+		for e := range els {
+			want += els[e].strainEnergy(order, ref.bar[stride*e:stride*e+order.nodes()], ref.beam[2*e:2*e+4])
+		}
+		if relErr(s.StrainEnergy, want) > 1e-10 {
+			t.Errorf("order %d: strain energy %.15g, assembled %.15g", order, s.StrainEnergy, want)
+		}
+	}
+}
