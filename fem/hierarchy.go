@@ -91,24 +91,25 @@ func (r *stretchRefiner) split(lo, hi int, c taylor) {
 	pl, pm, ph := r.axialAt(xl), r.axialAt(xm), r.axialAt(xh)
 	ql, qm, qh := r.transverseAt(xl), r.transverseAt(xm), r.transverseAt(xh)
 
+	ia, ib := 1/a, 1/b // one division each; the rest multiplies
+
 	// Bar: the hat at m, ∫p·φ from the linear-load consistent forces of the
 	// two elements (its thermal forces cancel).
-	ea := r.axialRigidity
-	cu := (a*(pl+2*pm) + b*(2*pm+ph)) / 6 / (ea/a + ea/b)
+	cu := (a*(pl+2*pm) + b*(2*pm+ph)) / (6 * r.axialRigidity * (ia + ib))
 
 	// Beam: the end block of the left element plus the start block of the
 	// right one, loaded by their consistent forces at m.
 	ei := r.flexuralRigidity
-	k11 := 12 * ei * (1/(a*a*a) + 1/(b*b*b))
-	k12 := 6 * ei * (1/(b*b) - 1/(a*a))
-	k22 := 4 * ei * (1/a + 1/b)
+	k11 := 12 * ei * (ia*ia*ia + ib*ib*ib)
+	k12 := 6 * ei * (ib*ib - ia*ia)
+	k22 := 4 * ei * (ia + ib)
 	left, right := hermiteLoads(a, ql, qm), hermiteLoads(b, qm, qh)
 	fw, ft := left[2]+right[0], left[3]+right[1]
 	// The scaled off-diagonal |k12|/√(k11·k22) is at most √3/2, so the
 	// determinant keeps at least a quarter of k11·k22: no cancellation.
-	det := k11*k22 - k12*k12
-	cw := (k22*fw - k12*ft) / det
-	ct := (k11*ft - k12*fw) / det
+	idet := 1 / (k11*k22 - k12*k12)
+	cw := (k22*fw - k12*ft) * idet
+	ct := (k11*ft - k12*fw) * idet
 
 	p := r.disp[lo]
 	r.disp[m] = [3]float64{
@@ -117,14 +118,14 @@ func (r *stretchRefiner) split(lo, hi int, c taylor) {
 		p[Rotation] + a*(c.curvature+a*c.third/2) + ct,
 	}
 	r.split(lo, m, taylor{
-		slope:     c.slope + cu/a,
-		curvature: c.curvature + (6*cw/a-2*ct)/a,
-		third:     c.third + (6*ct-12*cw/a)/(a*a),
+		slope:     c.slope + cu*ia,
+		curvature: c.curvature + (6*cw*ia-2*ct)*ia,
+		third:     c.third + (6*ct-12*cw*ia)*ia*ia,
 	})
 	r.split(m, hi, taylor{
-		slope:     c.slope - cu/b,
-		curvature: c.curvature + a*c.third - (6*cw/b+4*ct)/b,
-		third:     c.third + (12*cw/b+6*ct)/(b*b),
+		slope:     c.slope - cu*ib,
+		curvature: c.curvature + a*c.third - (6*cw*ib+4*ct)*ib,
+		third:     c.third + (12*cw*ib+6*ct)*ib*ib,
 	})
 }
 

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"runtime"
 	"strings"
 	"testing"
 )
@@ -327,16 +328,32 @@ func TestMechanisms(t *testing.T) {
 	}
 }
 
-// BenchmarkSolve shows how Solve scales with the element count (it should be linear).
+// BenchmarkSolve shows how Solve scales with the element count (it should be
+// linear) on a three-span member with every kind of load and support; it
+// reports the bytes allocated per element and the heap in use, per element,
+// with the last solution alive.
 func BenchmarkSolve(b *testing.B) {
-	for _, n := range []int{1_000, 10_000, 100_000} {
+	for _, n := range []int{1_000, 10_000, 100_000, 1_000_000} {
 		b.Run(fmt.Sprintf("elements=%d", n), func(b *testing.B) {
 			m := mixedModel(n)
+			var s *Solution
+			var before, after runtime.MemStats
+			runtime.GC()
+			runtime.ReadMemStats(&before)
 			for b.Loop() {
-				if _, err := Solve(m); err != nil {
+				var err error
+				if s, err = Solve(m); err != nil {
 					b.Fatal(err)
 				}
 			}
+			runtime.ReadMemStats(&after)
+			elements := float64(len(s.Mesh.Elements))
+			b.ReportMetric(float64(after.TotalAlloc-before.TotalAlloc)/float64(b.N)/elements, "B/element")
+			runtime.GC()
+			runtime.ReadMemStats(&after)
+			b.ReportMetric(float64(after.HeapInuse-before.HeapInuse)/elements, "heap-B/element")
+			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/elements, "ns/element")
+			runtime.KeepAlive(s)
 		})
 	}
 }
