@@ -13,15 +13,10 @@ type (
 // material and the loads acting along it. Loads are linear within an element
 // because every break point of a distributed load is a node.
 type elementData struct {
-	start, length    float64    // m
-	axialRigidity    float64    // EA, N
-	flexuralRigidity float64    // EI, N·m²
-	area             float64    // m²
-	secondMoment     float64    // m⁴
-	fibre            float64    // c, m
-	thermalStrain    float64    // α·ΔT, free strain
-	axialLoad        [2]float64 // p at start and end, N/m
-	transverseLoad   [2]float64 // q at start and end, N/m
+	start, length float64 // m
+	sectionData
+	axialLoad      [2]float64 // p at start and end, N/m
+	transverseLoad [2]float64 // q at start and end, N/m
 }
 
 // gauss3 is the 3-point Gauss–Legendre rule on [0, 1], exact for polynomials

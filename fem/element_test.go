@@ -49,7 +49,7 @@ func TestElementLoadVectors(t *testing.T) {
 // The thermal nodal forces of a bar are ∓EA·α·ΔT at its ends and nothing at
 // a quadratic bar's middle node (virtual work of the free strain, from memory).
 func TestThermalLoadVectors(t *testing.T) {
-	d := elementData{length: 1.7, axialRigidity: 3e8, thermalStrain: 4e-4}
+	d := elementData{length: 1.7, sectionData: sectionData{axialRigidity: 3e8, thermalStrain: 4e-4}}
 	want := 3e8 * 4e-4
 	if f := d.barLoads(LinearBar); f[0] != -want || f[1] != want {
 		t.Errorf("linear: %v, want [%g %g]", f[:2], -want, want)
@@ -63,7 +63,7 @@ func TestThermalLoadVectors(t *testing.T) {
 // representable motions, which is independent of how the matrix was written:
 // ½·uᵀKu must equal ½∫EA·u'² or ½∫EI·w″² for the interpolated field.
 func TestElementStiffnessEnergy(t *testing.T) {
-	d := elementData{length: 1.3, axialRigidity: 2e9, flexuralRigidity: 5e6}
+	d := elementData{length: 1.3, sectionData: sectionData{axialRigidity: 2e9, flexuralRigidity: 5e6}}
 	quadForm := func(k localMatrix, u []float64) float64 {
 		s := 0.0
 		for i := range u {
@@ -98,7 +98,7 @@ func TestElementStiffnessEnergy(t *testing.T) {
 // The 12, 6L, 4L², 2L² entries of the Hermite stiffness (Hughes; from memory).
 func TestBeamStiffnessEntries(t *testing.T) {
 	L, EI := 2.0, 3.0
-	k := (&elementData{length: L, flexuralRigidity: EI}).beamStiffness()
+	k := (&elementData{length: L, sectionData: sectionData{flexuralRigidity: EI}}).beamStiffness()
 	want := [4][4]float64{
 		{12, 6 * L, -12, 6 * L},
 		{6 * L, 4 * L * L, -6 * L, 2 * L * L},

@@ -46,27 +46,25 @@ type taylor struct {
 
 // stretchRefiner fills the interior nodes and elements of one stretch.
 type stretchRefiner struct {
-	x                []float64
-	disp             [][3]float64
-	fields           []elementField
-	axialRigidity    float64 // EA, N
-	flexuralRigidity float64 // EI, N·m²
-	thermalStrain    float64
-	order            ElementOrder
+	x           []float64
+	disp        [][3]float64
+	fields      []elementField
+	sectionData // of the stretch
+	order       ElementOrder
 	// Loads are linear on the stretch: intensity at start plus slope·(x − start).
-	start                     float64
-	axial, axialSlope         float64 // N/m, N/m²
-	transverse, transverseSlp float64 // N/m, N/m²
-	energy                    float64 // twice the strain energy, J
+	start                       float64
+	axial, axialSlope           float64 // N/m, N/m²
+	transverse, transverseSlope float64 // N/m, N/m²
+	energy                      float64 // twice the strain energy, J
 }
 
 // refineStretch solves the hierarchical levels of the stretch between fine
 // nodes lo and hi, whose displacements are already in disp.
 func refineStretch(r *stretchRefiner, d *elementData, lo, hi int) {
-	r.axialRigidity, r.flexuralRigidity, r.thermalStrain = d.axialRigidity, d.flexuralRigidity, d.thermalStrain
+	r.sectionData = d.sectionData
 	r.start = d.start
 	r.axial, r.axialSlope = d.axialLoad[0], (d.axialLoad[1]-d.axialLoad[0])/d.length
-	r.transverse, r.transverseSlp = d.transverseLoad[0], (d.transverseLoad[1]-d.transverseLoad[0])/d.length
+	r.transverse, r.transverseSlope = d.transverseLoad[0], (d.transverseLoad[1]-d.transverseLoad[0])/d.length
 	a, b := r.disp[lo], r.disp[hi]
 	_, _, d2, d3 := hermite(0, d.length)
 	beam := [4]float64{a[Transverse], a[Rotation], b[Transverse], b[Rotation]}
@@ -136,7 +134,7 @@ func (r *stretchRefiner) finish(e int, c taylor) {
 	strain := c.slope - r.thermalStrain
 	bar := strain * strain
 	if r.order == QuadraticBar {
-		d := elementData{length: h, axialRigidity: r.axialRigidity,
+		d := elementData{length: h, sectionData: sectionData{axialRigidity: r.axialRigidity},
 			axialLoad: [2]float64{r.axialAt(r.x[e]), r.axialAt(r.x[e+1])}}
 		k, load := d.barStiffness(QuadraticBar), d.barLoads(QuadraticBar)
 		f.bubble = load[1] / k[1][1]
@@ -154,7 +152,7 @@ func (r *stretchRefiner) axialAt(x float64) float64 {
 }
 
 func (r *stretchRefiner) transverseAt(x float64) float64 {
-	return r.transverse + r.transverseSlp*(x-r.start)
+	return r.transverse + r.transverseSlope*(x-r.start)
 }
 
 // keyNodes returns the index in x of every key point of m, in order.

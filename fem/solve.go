@@ -331,21 +331,16 @@ func (p PointLoad) component(d Dof) float64 {
 // elementTable gathers each element's properties and the loads along it.
 func elementTable(m *Model, mesh Mesh) []elementData {
 	els := make([]elementData, len(mesh.Elements))
+	sections := sectionTable(m)
 	for i, e := range mesh.Elements {
 		seg := m.Segments[e.Segment]
-		sec, mat := seg.Section, seg.Material
-		weight := mat.Density * sec.Area // kg/m
+		weight := seg.Material.Density * seg.Section.Area // kg/m
 		els[i] = elementData{
-			start:            e.Start,
-			length:           e.End - e.Start,
-			axialRigidity:    mat.Elastic * sec.Area,
-			flexuralRigidity: mat.Elastic * sec.SecondMoment,
-			area:             sec.Area,
-			secondMoment:     sec.SecondMoment,
-			fibre:            sec.FibreDistance,
-			thermalStrain:    mat.ThermalExpansion * m.TemperatureChange,
-			axialLoad:        [2]float64{weight * m.Gravity[0], weight * m.Gravity[0]},
-			transverseLoad:   [2]float64{weight * m.Gravity[1], weight * m.Gravity[1]},
+			start:          e.Start,
+			length:         e.End - e.Start,
+			sectionData:    sections[e.Segment],
+			axialLoad:      [2]float64{weight * m.Gravity[0], weight * m.Gravity[0]},
+			transverseLoad: [2]float64{weight * m.Gravity[1], weight * m.Gravity[1]},
 		}
 	}
 	for _, d := range m.DistributedLoad {
