@@ -16,7 +16,6 @@ type analysis struct {
 	err      error         // why the finite element solve failed
 	exact    *fem.Exact    // nil when no closed form was found
 	exactErr error
-	norms    fem.ErrorNorms // finite element against exact; zero without both
 	checks   []check.Result // nil when there is no solution
 }
 
@@ -29,9 +28,6 @@ func analyse(r request) analysis {
 	}
 	a.solution, a.err = fem.Solve(&a.model)
 	a.exact, a.exactErr = fem.SolveExact(&a.model)
-	if a.solution != nil && a.exact != nil {
-		a.norms = fem.Compare(a.solution, a.exact)
-	}
 	if a.solution != nil {
 		a.checks = check.Run(&a.model, a.solution, a.exact, r.opts)
 	}

@@ -53,6 +53,9 @@ func checkRows(a *analysis) []checkRow {
 	for _, msg := range a.solution.Warnings {
 		rows = append(rows, checkRow{status: "caution", name: "solver", message: msg, importance: widget.WarningImportance, failing: true})
 	}
+	if a.exact == nil && a.exactErr != nil {
+		rows = append(rows, checkRow{status: "note", name: "no exact solution", message: a.exactErr.Error(), importance: widget.MediumImportance})
+	}
 	return append(rows, designRows(a)...)
 }
 
