@@ -203,29 +203,29 @@ func nativeFile(save bool, title, filterName, ext, current string) (path string,
 }
 
 func (w *Window) fyneFile(save bool, ext string, done func(string)) {
-	if save {
-		d := dialog.NewFileSave(func(uc fyne.URIWriteCloser, err error) {
-			if err != nil || uc == nil {
-				return
-			}
-			path := uc.URI().Path()
-			uc.Close()
-			done(path)
-		}, w.win)
-		d.SetFilter(storagefilter.NewExtensionFileFilter([]string{"." + ext}))
-		d.SetFileName("member." + ext)
-		d.Resize(fyne.NewSize(900, 600))
-		d.Show()
-		return
-	}
-	d := dialog.NewFileOpen(func(uc fyne.URIReadCloser, err error) {
-		if err != nil || uc == nil {
-			return
-		}
+	finish := func(uc interface {
+		URI() fyne.URI
+		io.Closer
+	}) {
 		path := uc.URI().Path()
 		uc.Close()
 		done(path)
-	}, w.win)
+	}
+	var d *dialog.FileDialog
+	if save {
+		d = dialog.NewFileSave(func(uc fyne.URIWriteCloser, err error) {
+			if err == nil && uc != nil {
+				finish(uc)
+			}
+		}, w.win)
+		d.SetFileName("member." + ext)
+	} else {
+		d = dialog.NewFileOpen(func(uc fyne.URIReadCloser, err error) {
+			if err == nil && uc != nil {
+				finish(uc)
+			}
+		}, w.win)
+	}
 	d.SetFilter(storagefilter.NewExtensionFileFilter([]string{"." + ext}))
 	d.Resize(fyne.NewSize(900, 600))
 	d.Show()
