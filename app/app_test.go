@@ -2,7 +2,6 @@ package app
 
 import (
 	"math"
-	"path/filepath"
 	"runtime"
 	"sync"
 	"testing"
@@ -164,7 +163,7 @@ func TestSketchAMember(t *testing.T) {
 
 func demoProject(t testing.TB) *storage.Project {
 	t.Helper()
-	p, err := storage.Load(filepath.Join("..", "testdata", "demo.json"))
+	p, err := storage.Demo()
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -52,8 +52,8 @@ type opened struct {
 	problem string
 }
 
-// startProject reads path, or with no path the demo: testdata/demo.json if
-// it is there, else an empty sketch.
+// startProject reads path, or with no path the built-in demo; should the
+// demo not load, the window starts on an empty sketch and says why.
 func startProject(path string) (opened, error) {
 	if path != "" {
 		p, err := storage.Load(path)
@@ -62,10 +62,10 @@ func startProject(path string) (opened, error) {
 		}
 		return opened{project: p}, nil
 	}
-	p, err := storage.Load(filepath.Join("testdata", "demo.json"))
+	p, err := storage.Demo()
 	if err != nil {
 		empty := storage.Project{View: storage.DefaultView()}
-		return opened{project: &empty, problem: "no demo found (" + err.Error() + "); starting with an empty sketch"}, nil
+		return opened{project: &empty, problem: err.Error() + "; starting with an empty sketch"}, nil
 	}
 	return opened{project: p}, nil
 }

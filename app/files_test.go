@@ -119,3 +119,17 @@ func TestKeys(t *testing.T) {
 		t.Errorf("Ctrl+Shift+Z left %d supports, want %d", got, n-1)
 	}
 }
+
+// TestStartWithoutFileOpensTheDemo: with no file the window opens the
+// built-in demo wherever the program was started from.
+func TestStartWithoutFileOpensTheDemo(t *testing.T) {
+	t.Chdir(t.TempDir())
+	o, err := startProject("")
+	if err != nil || o.problem != "" {
+		t.Fatalf("startProject(\"\") in an empty folder: %v, %q", err, o.problem)
+	}
+	want, _ := storage.Demo()
+	if o.project.Notes != want.Notes || len(o.project.Model.Supports) != len(want.Model.Supports) {
+		t.Errorf("started on %+v, want the demo %+v", o.project.Notes, want.Notes)
+	}
+}
