@@ -86,12 +86,15 @@ func (e *PivotError) Error() string {
 //
 // Factorize costs O(N·K²) and SolveTo O(N·K); neither allocates once the
 // receiver has been used for a matrix of the same size. Half-bandwidths 1
-// (linear bar) and 3 (beam) have unrolled kernels.
+// (linear bar) and 3 (beam) have unrolled kernels; 3 is factorized from both
+// ends at once (band3.go).
 type BandLDL struct {
 	n, k int
 	// f holds U above the diagonal and D⁻¹ on it, in SymBand layout, so the
 	// solves multiply instead of divide.
 	f []float64
+	// twisted: half-bandwidth 3 factorized from both ends (band3.go).
+	twisted bool
 	// work is scratch for the condition estimate.
 	work [3][]float64
 }
@@ -106,7 +109,7 @@ func (f *BandLDL) Factorize(a *SymBand) error {
 	if n < 0 || k < 0 || len(a.Data) < n*w {
 		return errors.New("fem: band matrix storage is smaller than its size")
 	}
-	f.n, f.k = 0, 0
+	f.n, f.k, f.twisted = 0, 0, false
 	if cap(f.f) < n*w {
 		f.f = make([]float64, n*w)
 	}
@@ -120,7 +123,14 @@ func (f *BandLDL) Factorize(a *SymBand) error {
 	case 1:
 		from, err = factorBand1(d, orig, n)
 	case 3:
-		from, err = factorBand3(d, orig, n)
+		if n >= twistedMin {
+			if err := factorTwisted3(d, orig, n); err != nil {
+				return err
+			}
+			f.n, f.k, f.twisted = n, k, true
+			return nil
+		}
+		fallthrough
 	default:
 		copy(d, orig[:n*w])
 	}
@@ -196,42 +206,6 @@ func factorBand1(d, orig []float64, n int) (int, error) {
 	return i, nil
 }
 
-// factorBand3 is factorBand1 for half-bandwidth 3. The updates row i makes
-// to rows i+1..i+3 are carried in registers, not stored and reloaded.
-func factorBand3(d, orig []float64, n int) (int, error) {
-	// Pending updates: row i (entries 0-2), row i+1 (0-1), row i+2 (0).
-	var p0, p1, p2, q0, q1, s0 float64
-	i := 0
-	for ; i+3 < n; i++ {
-		o := orig[4*i : 4*i+4 : 4*i+4]
-		piv := o[0] + p0
-		if !pivotOK(piv, o[0]) {
-			return i, &PivotError{Row: i, Pivot: piv, Diagonal: o[0]}
-		}
-		a1, a2, a3 := o[1]+p1, o[2]+p2, o[3]
-		// a1² is ready before the division ends: the next pivot waits for
-		// one multiplication after it, not two.
-		a11 := a1 * a1
-		inv := 1 / piv
-		l1, l2, l3 := a1*inv, a2*inv, a3*inv
-		p0, p1, p2 = q0-a11*inv, q1-l1*a2, -l1*a3
-		q0, q1 = s0-l2*a2, -l2*a3
-		s0 = -l3 * a3
-		r := d[4*i : 4*i+4 : 4*i+4]
-		r[0], r[1], r[2], r[3] = inv, l1, l2, l3
-	}
-	if i < n {
-		copy(d[4*i:], orig[4*i:4*n])
-		pending := [...]struct{ row, entry int }{{0, 0}, {0, 1}, {0, 2}, {1, 0}, {1, 1}, {2, 0}}
-		for j, v := range [...]float64{p0, p1, p2, q0, q1, s0} {
-			if row := i + pending[j].row; row < n {
-				d[4*row+pending[j].entry] += v
-			}
-		}
-	}
-	return i, nil
-}
-
 // SolveTo solves A·x = b into dst using the factorization; dst and b may be
 // the same slice.
 func (f *BandLDL) SolveTo(dst, b []float64) error {
@@ -240,16 +214,19 @@ func (f *BandLDL) SolveTo(dst, b []float64) error {
 		return fmt.Errorf("fem: solve with vectors of length %d and %d for a factorization of order %d", len(dst), len(b), n)
 	}
 	d, x := f.f, dst
+	if f.twisted {
+		solveTwisted3(d, x, b, n)
+		return nil
+	}
 	// Rows below tail have a full band under them and take the unrolled
-	// kernels, which read b as they go and carry the updates of the next
-	// rows in registers; the rest is done in place on x.
+	// kernel, which reads b as it goes and carries the update of the next
+	// row in a register; the rest is done in place on x.
 	tail := 0
-	if k == 1 || k == 3 {
+	if k == 1 {
 		tail = max(n-k, 0)
 	}
 	// Uᵀ·y = b and z = D⁻¹·y, by columns of U.
-	switch k {
-	case 1:
+	if k == 1 {
 		var p0 float64
 		for i := range tail {
 			r := d[2*i : 2*i+2 : 2*i+2]
@@ -261,21 +238,7 @@ func (f *BandLDL) SolveTo(dst, b []float64) error {
 		if tail < n {
 			x[tail] += p0
 		}
-	case 3:
-		var p0, p1, p2 float64
-		for i := range tail {
-			r := d[4*i : 4*i+4 : 4*i+4]
-			y := b[i] + p0
-			p0, p1, p2 = p1-r[1]*y, p2-r[2]*y, -r[3]*y
-			x[i] = y * r[0]
-		}
-		copy(x[tail:], b[tail:])
-		for j, v := range [...]float64{p0, p1, p2} {
-			if tail+j < n {
-				x[tail+j] += v
-			}
-		}
-	default:
+	} else {
 		copy(x, b)
 	}
 	w := k + 1
@@ -298,23 +261,11 @@ func (f *BandLDL) SolveTo(dst, b []float64) error {
 		}
 		x[i] = s
 	}
-	switch k {
-	case 1:
-		if tail > 0 {
-			x1 := x[tail]
-			for i := tail - 1; i >= 0; i-- {
-				x1 = x[i] - d[2*i+1]*x1
-				x[i] = x1
-			}
-		}
-	case 3:
-		if tail > 0 {
-			x1, x2, x3 := x[tail], x[tail+1], x[tail+2]
-			for i := tail - 1; i >= 0; i-- {
-				r := d[4*i : 4*i+4 : 4*i+4]
-				x1, x2, x3 = x[i]-r[3]*x3-r[2]*x2-r[1]*x1, x1, x2
-				x[i] = x1
-			}
+	if tail > 0 {
+		x1 := x[tail]
+		for i := tail - 1; i >= 0; i-- {
+			x1 = x[i] - d[2*i+1]*x1
+			x[i] = x1
 		}
 	}
 	return nil

@@ -386,7 +386,7 @@ func TestConditionWarning(t *testing.T) {
 	for _, c := range []struct {
 		gap  float64 // distance between two point loads, relative to L
 		warn bool
-	}{{1e-3, false}, {1e-5, true}} {
+	}{{1e-3, false}, {1e-4, true}} {
 		m := withPointLoad(testModel(Support{X: 0, Kind: Fixed}), PointLoad{X: 3, Transverse: testP})
 		m = withPointLoad(m, PointLoad{X: 3 + c.gap*testL, Transverse: -testP / 2})
 		m.Mesh.Elements = 1000
