@@ -143,6 +143,37 @@ func TestFineBeamAccuracy(t *testing.T) {
 	}
 }
 
+// Graded meshes (MeshFromNodes, as adaptive refinement makes them) keep the
+// same nodal accuracy: element lengths here range over five decades.
+func TestGradedBeamAccuracy(t *testing.T) {
+	for _, c := range accuracyModels() {
+		ex, err := fem.SolveExact(&c.model)
+		if err != nil {
+			t.Fatal(err)
+		}
+		const n = 100_000
+		x := make([]float64, n+1)
+		for i := range x {
+			r := float64(i) / n
+			x[i] = c.model.Length() * r * r
+		}
+		mesh, err := fem.MeshFromNodes(&c.model, x)
+		if err != nil {
+			t.Fatal(err)
+		}
+		s, err := fem.SolveOnMesh(&c.model, mesh)
+		if err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		w, th := nodalErrors(s, ex)
+		allowed := 1e-12 * math.Log(n)
+		t.Logf("%-25s graded, %d elements: nodal w %.2g, θ %.2g", c.name, len(mesh.Elements), w, th)
+		if !(w <= allowed) || !(th <= allowed) || len(s.Warnings) != 0 {
+			t.Errorf("%s, graded mesh: nodal deflection error %.3g, rotation %.3g, allowed %.3g; warnings %v", c.name, w, th, allowed, s.Warnings)
+		}
+	}
+}
+
 // TestFineBarAccuracy: a bar under a point load, a rising axial load,
 // self-weight along the axis and heating, up to 10⁶ linear or quadratic
 // elements (10⁶ for quadratic ones only, to keep the test short). Nodal u is exact in exact arithmetic (Strang & Fix ch. 1, from
