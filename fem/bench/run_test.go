@@ -66,7 +66,7 @@ func TestQuickRun(t *testing.T) {
 	keys := map[string]int{}
 	collectKeys(decoded, keys)
 	for _, want := range []string{
-		"ours_to_pbtrf_pbtrs_ratio", "ours_to_band_copy_ratio", "ours_to_dense_ratio",
+		"ours_to_pbtrf_pbtrs_ratio", "fem_solve_to_pbtrf_pbtrs_ratio", "ours_to_band_copy_ratio", "ours_to_dense_ratio",
 		"band_cholesky_to_pbtrf_ratio", "scaling_exponent", "elements", "total_seconds",
 		"peak_heap_bytes_per_element", "allocated_bytes_per_element", "cpus", "go_version",
 	} {
