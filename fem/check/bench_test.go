@@ -1,0 +1,41 @@
+package check
+
+import (
+	"fmt"
+	"path/filepath"
+	"testing"
+
+	"stave/fem"
+	"stave/storage"
+)
+
+// loadModel reads one of the shared model files in testdata.
+func loadModel(t testing.TB, name string) *fem.Model {
+	t.Helper()
+	p, err := storage.Load(filepath.Join("..", "..", "testdata", name))
+	if err != nil {
+		t.Fatalf("loading %s: %v", name, err)
+	}
+	return &p.Model
+}
+
+func BenchmarkRun(b *testing.B) {
+	for _, elements := range []int{10000, 100000} {
+		b.Run(fmt.Sprintf("elements=%d", elements), func(b *testing.B) {
+			m := loadModel(b, "demo.json")
+			m.Mesh.Elements, m.Mesh.MaxElementLength = elements, 0
+			s, err := fem.Solve(m)
+			if err != nil {
+				b.Fatal(err)
+			}
+			e, err := fem.SolveExact(m)
+			if err != nil {
+				b.Fatal(err)
+			}
+			b.ReportAllocs()
+			for b.Loop() {
+				Run(m, s, e, Options{})
+			}
+		})
+	}
+}
