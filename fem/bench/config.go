@@ -24,8 +24,9 @@ const (
 type Config struct {
 	// Elements lists the mesh sizes (requested elements) of the main table.
 	Elements []int
-	// ExponentFrom is the smallest size that enters the scaling exponent:
-	// below it fixed costs hide the growth with n.
+	// ExponentFrom is the smallest size that enters the scaling exponent and
+	// the per-element targets (bytes, multiple of a band copy): below it fixed
+	// costs and caches hide the growth with n. The table shows every size.
 	ExponentFrom int
 	// DenseUnknowns lists the system sizes of the comparison with the dense
 	// solver, whose cost grows as n³.
