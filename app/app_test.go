@@ -65,10 +65,16 @@ func newTestWindow(t testing.TB, p *storage.Project) (*Window, *uiQueue) {
 	return w, q
 }
 
-// solved waits until the current model has results.
+// finished waits until both stages of the current model's analysis are shown.
+func finished(t testing.TB, w *Window, q *uiQueue) {
+	t.Helper()
+	q.waitFor(t, "the solver", func() bool { return w.result != nil && w.result.seq == w.pending && w.result.complete })
+}
+
+// solved waits until the current model has all its results.
 func solved(t testing.TB, w *Window, q *uiQueue) *fem.Solution {
 	t.Helper()
-	q.waitFor(t, "the solver", func() bool { return w.result != nil && w.result.seq == w.pending })
+	finished(t, w, q)
 	if w.result.solution == nil {
 		t.Fatalf("no solution: %v", w.result.err)
 	}

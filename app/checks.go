@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"sort"
+	"strings"
 
 	"fyne.io/fyne/v2/widget"
 
@@ -49,6 +50,11 @@ func checkRows(a *analysis) []checkRow {
 	}
 	if a.solution == nil {
 		return rows
+	}
+	if !a.complete {
+		rows = append(rows, checkRow{status: "…", name: "exact solution and checks follow when the drawing rests",
+			message:    "The finite element result is shown at once; the exact solution and the checks are worked out after it, once edits pause.",
+			importance: widget.LowImportance})
 	}
 	for _, msg := range a.solution.Warnings {
 		rows = append(rows, checkRow{status: "caution", name: "solver", message: msg, importance: widget.WarningImportance, failing: true})
@@ -109,4 +115,30 @@ func resultSummary(a *analysis, u units.System) string {
 	res := math.Max(math.Abs(e.Residual[0]), math.Abs(e.Residual[1]))
 	return fmt.Sprintf("%d elements, %d nodes · out of balance %s, %s · condition ≈ %.2g",
 		len(s.Mesh.Elements), len(s.Mesh.X), u.Format(units.Force, res), u.Format(units.Moment, math.Abs(e.Residual[2])), s.Condition)
+}
+
+// handbookText shows the handbook case the model matches, with each
+// handbook value beside Stave's finite element and exact values; "" when
+// the model is no handbook case. The pass/caution verdicts are in the
+// "Handbook:" rows of the checks list.
+func handbookText(a *analysis, u units.System) string {
+	if a == nil || a.handbook == nil || a.solution == nil {
+		return ""
+	}
+	c := a.handbook
+	var b strings.Builder
+	fmt.Fprintf(&b, "Handbook cross-check: %s\n%s  (%s)", c.Name, c.Formula, c.Source)
+	for _, q := range c.Quantities {
+		fe, ok := q.Read(a.solution, a.solution.Reactions)
+		if !ok {
+			continue
+		}
+		fmt.Fprintf(&b, "\n• %s: handbook %s · Stave FE %s", q.Name, u.Format(q.Kind, q.Value), u.Format(q.Kind, fe))
+		if a.exact != nil {
+			if ex, ok := q.Read(a.exact, a.exact.Reactions()); ok {
+				fmt.Fprintf(&b, " · exact %s", u.Format(q.Kind, ex))
+			}
+		}
+	}
+	return b.String()
 }

@@ -65,6 +65,7 @@ type drawing struct {
 	w     *Window
 	view  canvas.View
 	scene *canvas.Scene
+	cache canvas.Cache // sampled results, kept while only the mouse moves
 
 	gesture  *gesture
 	button   desktop.MouseButton // button held since MouseDown

@@ -17,7 +17,6 @@ import (
 	"fyne.io/fyne/v2/widget"
 	native "github.com/sqweek/dialog"
 
-	"stave/canvas"
 	"stave/storage"
 )
 
@@ -83,6 +82,8 @@ func (w *Window) mainMenu() *fyne.MainMenu {
 	recent := fyne.NewMenuItem("Open recent", nil)
 	recent.ChildMenu = fyne.NewMenu("")
 	w.fillRecent(recent.ChildMenu)
+	exports := fyne.NewMenuItem("Export", nil)
+	exports.ChildMenu = w.exportMenu()
 	file := fyne.NewMenu("File",
 		fyne.NewMenuItem("New", w.newProject),
 		fyne.NewMenuItem("Open…", w.openDialog),
@@ -91,11 +92,7 @@ func (w *Window) mainMenu() *fyne.MainMenu {
 		fyne.NewMenuItem("Save", func() { w.save(nil) }),
 		fyne.NewMenuItem("Save as…", func() { w.saveAs(nil) }),
 		fyne.NewMenuItemSeparator(),
-		fyne.NewMenuItem("Export drawing as PNG…", func() { w.export("png") }),
-		fyne.NewMenuItem("Export drawing as SVG…", func() { w.export("svg") }),
-		fyne.NewMenuItem("Export drawing as PDF…", func() { w.export("pdf") }),
-		fyne.NewMenuItem("Export calculation sheet (PDF)…", func() { w.export("sheet") }),
-		fyne.NewMenuItem("Export results table (CSV)…", func() { w.export("csv") }),
+		exports,
 	)
 	edit := fyne.NewMenu("Edit",
 		fyne.NewMenuItem("Undo", w.undo),
@@ -427,77 +424,55 @@ func (w *Window) offerRecovery() {
 		}, w.win)
 }
 
-// exportSize is the drawing size of exported images, pixels (points for
-// vector formats): a landscape page's width.
-var exportSize = fyne.NewSize(1200, 800)
-
-// csvPointsPerElement is how many intervals of each element the results table samples.
-const csvPointsPerElement = 4
-
-// exports are the File ▸ Export products: file extension and writer.
-var exports = map[string]struct {
-	ext   string
-	write func(w *Window, f io.Writer) error
-}{
-	"png":   {"png", func(w *Window, f io.Writer) error { return w.writeImage(f, "png") }},
-	"svg":   {"svg", func(w *Window, f io.Writer) error { return w.writeImage(f, "svg") }},
-	"pdf":   {"pdf", func(w *Window, f io.Writer) error { return w.writeImage(f, "pdf") }},
-	"sheet": {"pdf", (*Window).writeSheet},
-	"csv": {"csv", func(w *Window, f io.Writer) error {
-		in := w.sceneInput()
-		return canvas.WriteCSV(f, in.Solution, in.Exact, w.units, csvPointsPerElement)
-	}},
-}
-
-// panels are the diagrams switched on in the window, for exports.
-func (w *Window) panels() canvas.ExportPanels {
-	l := w.layers
-	return canvas.ExportPanels{Deformed: l.Deformed, AxialForce: l.AxialForce, ShearForce: l.ShearForce,
-		BendingMoment: l.BendingMoment, Stress: l.Stress}
-}
-
-func (w *Window) writeImage(f io.Writer, format string) error {
-	return canvas.WriteImage(f, format, w.sceneInput(), w.panels(), exportSize.Width, exportSize.Height)
-}
-
-func (w *Window) writeSheet(f io.Writer) error {
-	n := w.project.Notes
-	var flagged []string
-	for _, r := range w.checks {
-		if r.importance == widget.DangerImportance || r.importance == widget.WarningImportance {
-			flagged = append(flagged, r.status+" — "+r.name+": "+r.message)
-		}
+// exportMenu lists the exports; the convergence chart once a study has run.
+func (w *Window) exportMenu() *fyne.Menu {
+	m := fyne.NewMenu("")
+	for _, k := range exportKinds {
+		m.Items = append(m.Items, fyne.NewMenuItem(k.menu, func() { w.export(k.kind) }))
 	}
-	return canvas.WriteSheet(f, "pdf", canvas.SheetInput{
-		Input:  w.sceneInput(),
-		Notes:  canvas.SheetNotes{Project: n.Project, Mark: n.Member, Engineer: n.Engineer, Date: n.Date, Version: Version},
-		Panels: w.panels(),
-		Checks: flagged,
-	})
+	return m
 }
 
-// export writes one of the exports to a file the user chooses.
+// exportSource is the window's project and its complete analysis: the one
+// shown when it is current and complete, otherwise solved now, so an export
+// never waits for the background solver nor shows a stale result.
+func (w *Window) exportSource() exportSource {
+	a := w.result
+	if a == nil || a.seq != w.pending || !a.complete {
+		full := analyse(request{model: cloneModel(w.project.Model), nodes: w.adaptNodes, opts: w.checkOptions()})
+		a = &full
+	}
+	return exportSource{project: &w.project, analysis: a, rows: checkRows(a), layers: w.layers, units: w.units}
+}
+
+// export writes one of the exportKinds to a file the user chooses.
 func (w *Window) export(kind string) {
-	e, ok := exports[kind]
+	ext, ok := exportExt(kind)
 	if !ok {
 		w.setStatus("export of %s is not available in this build", kind)
 		return
 	}
-	w.chooseFile(true, "Export", strings.ToUpper(e.ext)+" file", e.ext, func(path string) {
-		if err := w.writeExport(path, e.write); err != nil {
-			dialog.ShowError(err, w.win)
-			return
-		}
-		w.setStatus("exported %s", path)
+	w.chooseFile(true, "Export", strings.ToUpper(ext)+" file", ext, func(path string) {
+		w.exportTo(path, func(f io.Writer) error { return writeExport(f, w.exportSource(), kind, ExportOptions{}) })
 	})
 }
 
-func (w *Window) writeExport(path string, write func(*Window, io.Writer) error) error {
+// exportTo writes a file with write and reports the outcome.
+func (w *Window) exportTo(path string, write func(io.Writer) error) {
+	if err := writeFile(path, write); err != nil {
+		dialog.ShowError(err, w.win)
+		return
+	}
+	w.setStatus("exported %s", path)
+}
+
+// writeFile creates path and fills it with write.
+func writeFile(path string, write func(io.Writer) error) error {
 	f, err := os.Create(path)
 	if err != nil {
 		return fmt.Errorf("cannot export: %w", err)
 	}
-	if err := write(w, f); err != nil {
+	if err := write(f); err != nil {
 		f.Close()
 		return fmt.Errorf("cannot export to %s: %w", path, err)
 	}

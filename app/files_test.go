@@ -2,6 +2,8 @@ package app
 
 import (
 	"bytes"
+	"image/png"
+	"io"
 	"os"
 	"path/filepath"
 	"strings"
@@ -44,23 +46,75 @@ func TestSaveMarksTitleAndReopens(t *testing.T) {
 	solved(t, w, q)
 }
 
-// TestExports writes every export and checks each file starts the way its
-// format requires.
+// TestExports writes every kind through Export and through the window's
+// path, and checks each starts the way its format requires.
 func TestExports(t *testing.T) {
 	w, q := newTestWindow(t, demoProject(t))
 	solved(t, w, q)
 	dir := t.TempDir()
-	starts := map[string]string{"png": "\x89PNG", "svg": "<?xml", "pdf": "%PDF", "sheet": "%PDF", "csv": "x"}
-	for kind, e := range exports {
-		path := filepath.Join(dir, kind+"."+e.ext)
-		if err := w.writeExport(path, e.write); err != nil {
-			t.Errorf("%s: %v", kind, err)
+	starts := map[string]string{"png": "\x89PNG", "svg": "<?xml", "pdf": "%PDF", "sheet-pdf": "%PDF", "sheet-png": "\x89PNG", "csv": "x"}
+	for _, k := range exportKinds {
+		var buf bytes.Buffer
+		if err := Export(&buf, demoProject(t), k.kind, ExportOptions{}); err != nil {
+			t.Errorf("Export %s: %v", k.kind, err)
+		} else if !bytes.HasPrefix(buf.Bytes(), []byte(starts[k.kind])) {
+			t.Errorf("Export %s starts with %q, want %q", k.kind, buf.Bytes()[:min(buf.Len(), 8)], starts[k.kind])
+		}
+		path := filepath.Join(dir, k.kind+"."+k.ext)
+		if err := writeFile(path, func(f io.Writer) error { return writeExport(f, w.exportSource(), k.kind, ExportOptions{}) }); err != nil {
+			t.Errorf("window export %s: %v", k.kind, err)
 			continue
 		}
 		data, err := os.ReadFile(path)
-		if err != nil || !bytes.HasPrefix(data, []byte(starts[kind])) {
-			t.Errorf("%s export starts with %q, want %q", kind, data[:min(len(data), 8)], starts[kind])
+		if err != nil || !bytes.HasPrefix(data, []byte(starts[k.kind])) {
+			t.Errorf("window export %s starts with %q, want %q", k.kind, data[:min(len(data), 8)], starts[k.kind])
 		}
+	}
+	if err := Export(io.Discard, demoProject(t), "jpeg", ExportOptions{}); err == nil || !strings.Contains(err.Error(), "sheet-png") {
+		t.Errorf("an unknown kind gave %v, want an error listing the kinds", err)
+	}
+}
+
+// TestExportPNGSize: a PNG drawing has Width·DPI/72 × Height·DPI/72 pixels.
+func TestExportPNGSize(t *testing.T) {
+	for _, c := range []struct {
+		opts          ExportOptions
+		width, height int
+	}{
+		{ExportOptions{}, 1600, 1067}, // defaults: 1200 × 800 points at 96 dpi
+		{ExportOptions{Width: 600, Height: 300, DPI: 72}, 600, 300},
+		{ExportOptions{Width: 600, Height: 300, DPI: 144}, 1200, 600},
+		{ExportOptions{Width: 400, Height: 500, DPI: 300}, 1667, 2083},
+	} {
+		var buf bytes.Buffer
+		if err := Export(&buf, demoProject(t), "png", c.opts); err != nil {
+			t.Fatalf("%+v: %v", c.opts, err)
+		}
+		cfg, err := png.DecodeConfig(&buf)
+		if err != nil {
+			t.Fatalf("%+v: %v", c.opts, err)
+		}
+		if cfg.Width != c.width || cfg.Height != c.height {
+			t.Errorf("%+v: PNG is %d × %d pixels, want %d × %d", c.opts, cfg.Width, cfg.Height, c.width, c.height)
+		}
+	}
+}
+
+// TestExportUnsolvable: a member that can move still gives a drawing with
+// the problem on it, but no results table.
+func TestExportUnsolvable(t *testing.T) {
+	p := &storage.Project{View: storage.DefaultView(), Model: newMember(4)}
+	p.Model.Supports = []fem.Support{{X: 0, Kind: fem.Roller}}
+	var svg bytes.Buffer
+	if err := Export(&svg, p, "svg", ExportOptions{}); err != nil {
+		t.Fatalf("drawing of a mechanism: %v", err)
+	}
+	if !strings.Contains(svg.String(), "free motion") {
+		t.Error("the drawing of a mechanism does not say \"free motion\"")
+	}
+	err := Export(io.Discard, p, "csv", ExportOptions{})
+	if err == nil || !strings.Contains(err.Error(), "free motion") {
+		t.Errorf("results table of a mechanism gave %v, want an error naming the free motion", err)
 	}
 }
 
@@ -70,7 +124,7 @@ func TestChecksShowFreeMotionAndHighlight(t *testing.T) {
 	p := &storage.Project{View: storage.DefaultView(), Model: newMember(4)}
 	p.Model.Supports = []fem.Support{{X: 0, Kind: fem.Roller}}
 	w, q := newTestWindow(t, p)
-	q.waitFor(t, "the solver", func() bool { return w.result != nil && w.result.seq == w.pending })
+	finished(t, w, q)
 	if len(w.checks) == 0 || w.checks[0].status != "FAIL" || !strings.HasPrefix(w.checks[0].name, "free motion") {
 		t.Fatalf("checks of a member on one roller: %+v", w.checks)
 	}

@@ -42,25 +42,27 @@ var supportKinds = []fem.SupportKind{fem.Fixed, fem.Pinned, fem.Roller, fem.Axia
 
 // controls are the widgets around the drawing.
 type controls struct {
-	w           *Window
-	toolButtons map[tool]*widget.Button
-	kindSelect  *widget.Select
-	properties  *fyne.Container
-	panel       propertiesPanel
-	readout     *readout
-	checkList   *widget.List
-	checkDetail *widget.Label
-	elements    *widget.Entry
-	order       *widget.Select
-	unitSelect  *widget.Select
-	grid        *widget.Entry
-	magnify     *widget.Slider
-	magnifyText *widget.Label
+	w            *Window
+	toolButtons  map[tool]*widget.Button
+	kindSelect   *widget.Select
+	properties   *fyne.Container
+	panel        propertiesPanel
+	readout      *readout
+	checkList    *widget.List
+	checkDetail  *widget.Label
+	elements     *widget.Entry
+	elementsUsed *widget.Label // the element count actually solved
+	layerChecks  map[*bool]*widget.Check
+	order        *widget.Select
+	unitSelect   *widget.Select
+	grid         *widget.Entry
+	magnify      *widget.Slider
+	magnifyText  *widget.Label
 }
 
 // build lays out the window's content.
 func (w *Window) build() {
-	c := &controls{w: w, toolButtons: map[tool]*widget.Button{}}
+	c := &controls{w: w, toolButtons: map[tool]*widget.Button{}, layerChecks: map[*bool]*widget.Check{}}
 	w.ui = c
 	w.status = widget.NewLabel("")
 	w.status.Truncation = fyne.TextTruncateEllipsis
@@ -174,8 +176,9 @@ func (c *controls) settingsBar() fyne.CanvasObject {
 	c.grid = widget.NewEntry()
 	c.grid.OnSubmitted = func(s string) { w.setGrid(s) }
 	c.showGrid()
+	c.elementsUsed = widget.NewLabel("")
 	return container.NewHBox(
-		widget.NewLabel("Elements"), container.NewGridWrap(fyne.NewSize(70, c.elements.MinSize().Height), c.elements), finer, coarser,
+		widget.NewLabel("Elements requested"), container.NewGridWrap(fyne.NewSize(70, c.elements.MinSize().Height), c.elements), c.elementsUsed, finer, coarser,
 		c.order,
 		widget.NewLabel("Snap"), container.NewGridWrap(fyne.NewSize(100, c.grid.MinSize().Height), c.grid),
 		c.unitSelect)
@@ -191,6 +194,7 @@ func (c *controls) layerBar() fyne.CanvasObject {
 			w.updateTitle()
 		})
 		ch.SetChecked(*on)
+		c.layerChecks[on] = ch
 		return ch
 	}
 	l := &w.layers
@@ -241,15 +245,39 @@ func (c *controls) showGrid() {
 	}
 }
 
-// showMesh shows the mesh settings of the current model.
+// showLayers brings the overlay switches in line with the window's layers.
+func (c *controls) showLayers() {
+	for on, ch := range c.layerChecks {
+		ch.SetChecked(*on)
+	}
+}
+
+// showMesh shows the mesh settings of the current model and the number of
+// elements solved: more than requested where key points (supports, loads,
+// segment ends) fall between the requested nodes, or the adaptive mesh.
 func (c *controls) showMesh() {
-	ms := c.w.project.Model.Mesh
+	w := c.w
+	ms := w.project.Model.Mesh
 	c.elements.SetText(strconv.Itoa(ms.Elements))
 	if ms.BarOrder == fem.QuadraticBar {
 		c.order.SetSelected("quadratic bar")
 	} else {
 		c.order.SetSelected("linear bar")
 	}
+	c.showElementsUsed()
+}
+
+// showElementsUsed shows how many elements the shown result has.
+func (c *controls) showElementsUsed() {
+	w := c.w
+	used := ""
+	if a := w.result; a != nil && a.seq == w.pending && a.solution != nil {
+		used = fmt.Sprintf("→ %d used", len(a.solution.Mesh.Elements))
+	}
+	if w.adaptNodes != nil {
+		used = fmt.Sprintf("→ adaptive mesh, %d used", len(w.adaptNodes)-1)
+	}
+	c.elementsUsed.SetText(used)
 }
 
 func (w *Window) setTool(t tool) {
@@ -321,7 +349,7 @@ func (w *Window) setUnits(s units.System) {
 	w.ui.showGrid()
 	w.ui.showProperties()
 	// Check messages are written in the display units: solve again.
-	w.pending = w.solver.submit(w.project.Model, w.checkOptions())
+	w.resubmit()
 	w.hoverChanged()
 	w.draw.Refresh()
 	w.updateTitle()
@@ -336,7 +364,11 @@ func (w *Window) hoverChanged() {
 func (w *Window) selectCheck(r checkRow) {
 	w.highlight = r.span
 	if r.name == "" {
-		w.ui.checkDetail.SetText(resultSummary(w.result, w.units) + "\nClick a check to read it and see its place on the drawing.")
+		text := resultSummary(w.result, w.units) + "\nClick a check to read it and see its place on the drawing."
+		if h := handbookText(w.result, w.units); h != "" {
+			text += "\n\n" + h
+		}
+		w.ui.checkDetail.SetText(text)
 	} else {
 		w.ui.checkDetail.SetText(r.status + " — " + r.name + ": " + r.message)
 	}
@@ -350,6 +382,7 @@ func (c *controls) showResults() {
 	w.selectCheck(checkRow{})
 	c.checkList.Refresh()
 	c.showMagnification()
+	c.showElementsUsed()
 	w.hoverChanged()
 }
 

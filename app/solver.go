@@ -12,13 +12,27 @@ import (
 type request struct {
 	seq   uint64
 	model fem.Model // a deep copy owned by the solver
+	nodes []float64 // adaptive mesh to solve on; nil for the model's uniform mesh
 	opts  check.Options
 }
+
+// stages are the two steps of an analysis (see analysis).
+type stages struct {
+	solve  func(request) analysis
+	finish func(request, analysis) analysis
+}
+
+// analysisStages are the stages the window uses.
+var analysisStages = stages{solve: solveStage, finish: finishStage}
 
 // solver analyses models on its own goroutine. Requests go through a
 // one-place mailbox in which a newer request replaces one not yet taken, so
 // a drag that produces hundreds of edits costs only as many analyses as the
-// solver can finish meanwhile. A result older than the newest request is
+// solver can finish meanwhile. Each request is delivered twice: first the
+// finite element result, then the same with the exact solution and the
+// checks. The second stage is skipped when a newer request is already
+// waiting, so during a drag only finite element solves run, and it catches
+// up when the mouse rests. A result older than the newest request is
 // dropped before it reaches the UI.
 type solver struct {
 	mailbox chan request
@@ -27,7 +41,7 @@ type solver struct {
 	latest  atomic.Uint64 // number of the newest request submitted
 	next    uint64        // owned by the submitting (UI) goroutine
 
-	analyse func(request) analysis
+	stages stages
 	// post runs a function on the UI goroutine: fyne.Do in the application,
 	// a queue the test drains in tests.
 	post    func(func())
@@ -35,11 +49,11 @@ type solver struct {
 }
 
 // newSolver starts the worker goroutine.
-func newSolver(analyse func(request) analysis, post func(func()), deliver func(analysis)) *solver {
+func newSolver(st stages, post func(func()), deliver func(analysis)) *solver {
 	s := &solver{
 		mailbox: make(chan request, 1),
 		quit:    make(chan struct{}),
-		analyse: analyse,
+		stages:  st,
 		post:    post,
 		deliver: deliver,
 	}
@@ -48,11 +62,15 @@ func newSolver(analyse func(request) analysis, post func(func()), deliver func(a
 	return s
 }
 
-// submit queues a copy of m and returns its sequence number. It never blocks.
-// It must be called from one goroutine only (the UI's).
-func (s *solver) submit(m fem.Model, opts check.Options) uint64 {
+// submit queues a copy of m (to be solved on nodes when not nil) and returns
+// its sequence number. It never blocks. It must be called from one goroutine
+// only (the UI's).
+func (s *solver) submit(m fem.Model, nodes []float64, opts check.Options) uint64 {
 	s.next++
-	r := request{seq: s.next, model: cloneModel(m), opts: opts}
+	r := request{seq: s.next, model: cloneModel(m), nodes: append([]float64(nil), nodes...), opts: opts}
+	if nodes == nil {
+		r.nodes = nil
+	}
 	s.latest.Store(r.seq)
 	for {
 		select {
@@ -73,6 +91,18 @@ func (s *solver) stop() {
 	s.done.Wait()
 }
 
+// stale reports whether a newer request than seq has been submitted.
+func (s *solver) stale(seq uint64) bool { return seq < s.latest.Load() }
+
+// send posts a to the UI goroutine, which delivers it if it is still the newest.
+func (s *solver) send(a analysis) {
+	s.post(func() {
+		if a.seq == s.latest.Load() {
+			s.deliver(a)
+		}
+	})
+}
+
 func (s *solver) run() {
 	defer s.done.Done()
 	for {
@@ -80,15 +110,19 @@ func (s *solver) run() {
 		case <-s.quit:
 			return
 		case r := <-s.mailbox:
-			a := s.analyse(r)
-			if a.seq < s.latest.Load() {
+			a := s.stages.solve(r)
+			if s.stale(a.seq) {
 				continue // a newer edit is already waiting
 			}
-			s.post(func() {
-				if a.seq == s.latest.Load() {
-					s.deliver(a)
-				}
-			})
+			s.send(a)
+			if s.stale(a.seq) {
+				continue
+			}
+			full := s.stages.finish(r, a)
+			if s.stale(full.seq) {
+				continue
+			}
+			s.send(full)
 		}
 	}
 }

@@ -1,64 +1,113 @@
 package app
 
 import (
+	"sync"
 	"testing"
 
 	"stave/fem"
 	"stave/fem/check"
 )
 
+// quickStages are analysis stages that solve nothing, for solver tests.
+func quickStages(solve func(r request)) stages {
+	return stages{
+		solve: func(r request) analysis {
+			if solve != nil {
+				solve(r)
+			}
+			return analysis{seq: r.seq, model: r.model}
+		},
+		finish: func(r request, a analysis) analysis { a.complete = true; return a },
+	}
+}
+
 // TestSolverKeepsOnlyTheNewest holds the worker busy on the first request
-// while 999 more arrive: it must analyse only the first and the last, and
-// deliver only the last.
+// while 999 more arrive: it must solve only the first and the last, and
+// deliver only the last, first without and then with its second stage.
 func TestSolverKeepsOnlyTheNewest(t *testing.T) {
 	release := make(chan struct{})
 	started := make(chan uint64, 10)
 	var analysed []uint64 // written by the worker, read after stop
 	q := &uiQueue{}
 	var delivered []analysis
-	s := newSolver(func(r request) analysis {
+	s := newSolver(quickStages(func(r request) {
 		started <- r.seq
 		if r.seq == 1 {
 			<-release
 		}
 		analysed = append(analysed, r.seq)
-		return analysis{seq: r.seq, model: r.model}
-	}, q.post, func(a analysis) { delivered = append(delivered, a) })
+	}), q.post, func(a analysis) { delivered = append(delivered, a) })
 
 	m := newMember(1)
-	s.submit(m, check.Options{})
+	s.submit(m, nil, check.Options{})
 	if first := <-started; first != 1 {
 		t.Fatalf("worker started on request %d, want 1", first)
 	}
 	for i := 2; i <= 1000; i++ {
 		m.Mesh.Elements = i
-		s.submit(m, check.Options{})
+		s.submit(m, nil, check.Options{})
 	}
 	close(release)
-	q.waitFor(t, "the newest result", func() bool { return len(delivered) > 0 })
+	q.waitFor(t, "the newest complete result", func() bool { return len(delivered) > 0 && delivered[len(delivered)-1].complete })
 	s.stop()
 	q.drain()
-	if len(delivered) != 1 || delivered[0].seq != 1000 || delivered[0].model.Mesh.Elements != 1000 {
-		t.Errorf("delivered %d results, the first numbered %d with %d elements; want one, number 1000 with 1000 elements",
-			len(delivered), delivered[0].seq, delivered[0].model.Mesh.Elements)
+	if len(delivered) != 2 || delivered[0].seq != 1000 || delivered[1].seq != 1000 || delivered[0].complete || delivered[1].model.Mesh.Elements != 1000 {
+		t.Errorf("delivered %+v; want request 1000 (1000 elements) twice, first without its second stage", delivered)
 	}
 	if len(analysed) != 2 || analysed[1] != 1000 {
-		t.Errorf("analysed requests %v, want [1 1000]", analysed)
+		t.Errorf("solved requests %v, want [1 1000]", analysed)
 	}
 }
 
-// TestSubmitCopiesTheModel: changing the caller's model after submitting
-// must not change what the solver sees.
+// TestSecondStageSkippedWhenNewerWaits: when an edit arrives while the
+// finite element result of the previous one is on its way to the UI, the
+// exact solution and checks of the previous one are never computed.
+func TestSecondStageSkippedWhenNewerWaits(t *testing.T) {
+	q := &uiQueue{}
+	posted, proceed := make(chan struct{}), make(chan struct{})
+	var once sync.Once
+	post := func(f func()) {
+		q.post(f)
+		once.Do(func() { posted <- struct{}{}; <-proceed })
+	}
+	st := quickStages(nil)
+	var finished []uint64 // written by the worker, read after stop
+	finish := st.finish
+	st.finish = func(r request, a analysis) analysis { finished = append(finished, r.seq); return finish(r, a) }
+	var delivered []analysis
+	s := newSolver(st, post, func(a analysis) { delivered = append(delivered, a) })
+	m := newMember(1)
+	s.submit(m, nil, check.Options{})
+	<-posted // the first result is posted; the worker waits
+	s.submit(m, nil, check.Options{})
+	close(proceed)
+	q.waitFor(t, "the complete second result", func() bool { return len(delivered) > 0 && delivered[len(delivered)-1].complete })
+	s.stop()
+	q.drain()
+	if len(finished) != 1 || finished[0] != 2 {
+		t.Errorf("second stage ran for requests %v, want only [2]", finished)
+	}
+	for _, a := range delivered {
+		if a.seq != 2 {
+			t.Errorf("delivered request %d, which was stale", a.seq)
+		}
+	}
+}
+
+// TestSubmitCopiesTheModel: changing the caller's model or nodes after
+// submitting must not change what the solver sees.
 func TestSubmitCopiesTheModel(t *testing.T) {
-	got := make(chan fem.Model, 1)
-	s := newSolver(func(r request) analysis { got <- r.model; return analysis{seq: r.seq} }, func(func()) {}, func(analysis) {})
+	got := make(chan request, 1)
+	s := newSolver(quickStages(func(r request) { got <- r }), func(func()) {}, func(analysis) {})
 	defer s.stop()
 	m := newMember(2)
 	m.Supports = []fem.Support{{X: 0, Kind: fem.Fixed}}
-	s.submit(m, check.Options{})
+	nodes := []float64{0, 1, 2}
+	s.submit(m, nodes, check.Options{})
 	m.Supports[0].X = 1
 	m.Segments[0].Section.Area = 7
-	if r := <-got; r.Supports[0].X != 0 || r.Segments[0].Section.Area == 7 {
+	nodes[1] = 1.5
+	if r := <-got; r.model.Supports[0].X != 0 || r.model.Segments[0].Section.Area == 7 || r.nodes[1] != 1 {
 		t.Errorf("the solver saw a change made after submitting: %+v", r)
 	}
 }

@@ -42,6 +42,12 @@ type Window struct {
 	units    units.System
 	// highlight is the x range of the selected check, m.
 	highlight [2]float64
+	// adaptNodes is the mesh of the last adaptive refinement, solved on
+	// until the model changes; nil for the uniform mesh of Mesh.Elements.
+	adaptNodes []float64
+	// note is added to the next status message, which may come from the
+	// caller of the function that set it (the name of an edit, say).
+	note string
 
 	draw   *drawing
 	ui     *controls
@@ -75,7 +81,7 @@ func newWindow(a fyne.App, p *storage.Project, path string, o options) *Window {
 	w.layers = layersFrom(w.project.View.Overlays)
 	w.win = a.NewWindow("Stave")
 	w.draw = newDrawing(w)
-	w.solver = newSolver(analyse, w.post, w.deliver)
+	w.solver = newSolver(analysisStages, w.post, w.deliver)
 	w.build()
 	w.win.Resize(fyne.NewSize(1280, 800))
 	w.win.SetCloseIntercept(w.closeRequested)
@@ -136,9 +142,10 @@ func (w *Window) updateTitle() {
 	w.win.SetTitle("Stave — " + name + mark)
 }
 
-// setStatus shows a message beside the caution.
+// setStatus shows a message beside the caution, followed by a pending note.
 func (w *Window) setStatus(format string, args ...any) {
-	w.status.SetText(fmt.Sprintf(format, args...))
+	w.status.SetText(fmt.Sprintf(format, args...) + w.note)
+	w.note = ""
 }
 
 // validate accepts an empty sketch and otherwise asks fem.
@@ -169,12 +176,23 @@ func (w *Window) apply(name string, change func(m *fem.Model) error) error {
 	return nil
 }
 
-// setModel makes m current and sends it to the solver; m must not be changed afterwards.
+// setModel makes m current and sends it to the solver; m must not be changed
+// afterwards. A new model drops an adaptive mesh, which was refined for the old one.
 func (w *Window) setModel(m fem.Model) {
 	w.project.Model = m
-	w.pending = w.solver.submit(m, w.checkOptions())
+	dropped := w.adaptNodes != nil
+	w.adaptNodes = nil
+	w.resubmit()
 	w.keepSelectionValid()
 	w.modelChanged()
+	if dropped {
+		w.note = fmt.Sprintf(" — the adaptive mesh was made for the model before this edit: back to %d uniform elements", m.Mesh.Elements)
+	}
+}
+
+// resubmit sends the current model to the solver again.
+func (w *Window) resubmit() {
+	w.pending = w.solver.submit(w.project.Model, w.adaptNodes, w.checkOptions())
 }
 
 // modelChanged brings everything that shows the model up to date.
@@ -261,33 +279,19 @@ func (w *Window) deliver(a analysis) {
 
 // checkOptions are the check limits of the project, messages in the display units.
 func (w *Window) checkOptions() check.Options {
-	return check.Options{SpanRatio: w.project.View.DeflectionLimit, SafetyFactor: w.project.View.SafetyFactor, Units: w.units}
+	return checkOptionsFor(w.project.View, w.units)
 }
 
 // sceneInput gathers what the drawing shows.
 func (w *Window) sceneInput() canvas.Input {
-	in := canvas.Input{
-		Model:         &w.project.Model,
-		Layers:        w.layers,
-		Magnification: w.project.View.Magnification,
-		Units:         w.units,
-		Selected:      w.selected,
-		HoverX:        w.draw.hoverX,
-		Hovering:      w.draw.hovering,
-		Highlight:     w.highlight,
-	}
-	if a := w.result; a != nil && a.seq == w.pending {
-		in.Solution, in.Exact = a.solution, a.exact
-		in.Problem = a.problem()
-		in.Unreliable = unreliable(w.checks)
-	} else if a != nil && len(w.project.Model.Segments) > 0 {
+	in := resultInput(&w.project, w.result, w.checks, w.layers, w.units)
+	if a := w.result; a != nil && a.seq != w.pending {
 		// Results of a slightly older model while the new one is solved:
 		// they follow the drag smoothly and are replaced within moments.
-		in.Solution, in.Exact = a.solution, a.exact
+		in.Problem, in.Unreliable = "", false
 	}
-	if len(w.project.Model.Segments) == 0 {
-		in.Solution, in.Exact = nil, nil
-	}
+	in.Selected, in.HoverX, in.Hovering, in.Highlight = w.selected, w.draw.hoverX, w.draw.hovering, w.highlight
+	in.Cache = &w.draw.cache
 	return in
 }
 
