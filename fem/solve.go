@@ -112,7 +112,7 @@ func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
 	}
 	s.Displacement = make([][3]float64, len(mesh.X))
 	for _, p := range []system{barSystem{LinearBar}, beamSystem{}} {
-		u, cond, err := solveBanded(m, coarse, stretches, p, s.Reactions)
+		u, cond, err := solveBanded(m, coarse, stretches, p)
 		if err != nil {
 			return nil, err
 		}
@@ -126,6 +126,11 @@ func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
 			}
 		}
 	}
+	keyDisp := make([][3]float64, len(keys))
+	for j, i := range keys {
+		keyDisp[j] = s.Displacement[i]
+	}
+	staticReactions(m, keyX, stretches, keyDisp, s.Reactions)
 	s.fields = make([]elementField, len(mesh.Elements))
 	r := stretchRefiner{x: mesh.X, disp: s.Displacement, fields: s.fields, order: s.barOrder}
 	depth := 0
@@ -192,10 +197,10 @@ func (beamSystem) local(d *elementData) (localMatrix, localVector) {
 }
 
 // solveBanded assembles problem p on mesh (with element data els), solves
-// it by BandLDL, fills p's components of reactions and returns the unknowns
-// and the condition estimate of the scaled matrix. Solve uses it for the
-// key-point mesh; on a fine mesh it is the plain assembled solution.
-func solveBanded(m *Model, mesh Mesh, els []elementData, p system, reactions []Reaction) ([]float64, float64, error) {
+// it by BandLDL and returns the unknowns and the condition estimate of the
+// scaled matrix. Solve uses it for the key-point mesh; on a fine mesh it is
+// the plain assembled solution.
+func solveBanded(m *Model, mesh Mesh, els []elementData, p system) ([]float64, float64, error) {
 	n, kb := p.size(len(els))
 	a := NewSymBand(n, kb)
 	rhs := make([]float64, n)
@@ -209,15 +214,11 @@ func solveBanded(m *Model, mesh Mesh, els []elementData, p system, reactions []R
 			}
 		}
 	}
-	point := make([]float64, n) // point loads, kept apart for the reactions
 	for _, pl := range m.PointLoads {
 		node := nearest(mesh.X, pl.X)
 		for mi, d := range p.motions() {
-			point[p.nodeDof(node, mi)] += pl.component(d)
+			rhs[p.nodeDof(node, mi)] += pl.component(d)
 		}
-	}
-	for i, v := range point {
-		rhs[i] += v
 	}
 	type prescribed struct {
 		dof   int
@@ -275,9 +276,7 @@ func solveBanded(m *Model, mesh Mesh, els []elementData, p system, reactions []R
 	for i := range scale {
 		scale[i] = 1 / math.Sqrt(a.Data[i*(kb+1)])
 	}
-	cond := f.Cond(a, scale)
-	bandReactions(m, mesh, els, p, u, point, reactions)
-	return u, cond, nil
+	return u, f.Cond(a, scale), nil
 }
 
 // pivotMessage turns a failed pivot into a message that names the place.
@@ -290,37 +289,6 @@ func pivotMessage(nodes []float64, p system, pe *PivotError) error {
 		}
 	}
 	return fmt.Errorf("the %s stiffness matrix is singular to working precision near x = %s (pivot %.3g of diagonal %.3g): check for very soft springs, very stiff contrasts, or supports and loads almost at one point", p.name(), fmtMetres(x), pe.Pivot, pe.Diagonal)
-}
-
-// bandReactions fills this problem's components of the support reactions:
-// rigid restraints from the element end forces K·u − f at the node less the
-// point loads there, springs as −k·displacement.
-func bandReactions(m *Model, mesh Mesh, els []elementData, p system, u, point []float64, reactions []Reaction) {
-	for r, sup := range m.Supports {
-		node := nearest(mesh.X, sup.X)
-		for mi, d := range p.motions() {
-			dof := p.nodeDof(node, mi)
-			switch {
-			case sup.Kind == Spring:
-				reactions[r].Force[d] = -sup.Stiffness[d] * u[dof]
-			case sup.Kind.Restrains(d):
-				force := -point[dof]
-				for e := max(node-1, 0); e <= min(node, len(els)-1); e++ {
-					first, count := p.element(e)
-					if dof < first || dof >= first+count {
-						continue
-					}
-					k, f := p.local(&els[e])
-					a := dof - first
-					force -= f[a]
-					for b := range count {
-						force += k[a][b] * u[first+b]
-					}
-				}
-				reactions[r].Force[d] = force
-			}
-		}
-	}
 }
 
 // component returns the part of the point load that acts on motion d.

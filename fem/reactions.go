@@ -1,0 +1,173 @@
+package fem
+
+// Reactions from K·u − f at a support lose digits when a short stretch joins
+// it (a load a few millimetres from a support): the stretch's end forces are
+// differences of terms EI/h³ times nodal values that the solve can only
+// round. In exact arithmetic every element's end forces balance its own
+// loads, and every node that no rigid restraint holds balances its point
+// loads and spring forces, so the section actions follow by statics from one
+// stretch between two restraints. Taking that stretch to be the most
+// flexible one there (largest h³/EI, h/EA for the bar) and carrying its end
+// actions across the others gives the same reactions as K·u − f, free of
+// the short stretches' round-off. Loads and reactions then balance to
+// round-off by construction.
+
+// stretchActions are the section actions just inside both ends of a stretch.
+type stretchActions struct {
+	axial         [2]float64 // N at start and end, N
+	shear, moment [2]float64 // V (N) and M (N·m) at start and end
+}
+
+// keyLoads are what acts at one key point apart from rigid reactions: point
+// loads and spring forces, by Dof.
+type keyLoads [3]float64
+
+// staticReactions fills every support's reaction on the key-point mesh with
+// key nodes x, stretches els and key-point displacements disp.
+func staticReactions(m *Model, x []float64, els []elementData, disp [][3]float64, reactions []Reaction) {
+	nk := len(x)
+	held := make([][3]bool, nk)
+	loads := make([]keyLoads, nk)
+	for _, p := range m.PointLoads {
+		k := nearest(x, p.X)
+		for d := Axial; d <= Rotation; d++ {
+			loads[k][d] += p.component(d)
+		}
+	}
+	for r, sup := range m.Supports {
+		k := nearest(x, sup.X)
+		for d := Axial; d <= Rotation; d++ {
+			switch {
+			case sup.Kind == Spring:
+				f := -sup.Stiffness[d] * disp[k][d]
+				reactions[r].Force[d] = f
+				loads[k][d] += f
+			case sup.Kind.Restrains(d):
+				held[k][d] = true
+			}
+		}
+	}
+	acts := make([]stretchActions, len(els))
+	// Spans between restraints of one motion share their section action.
+	for d := Axial; d <= Rotation; d++ {
+		for lo := 0; lo < len(els); {
+			hi := lo + 1 // the span is stretches lo..hi−1
+			for hi < len(els) && !held[hi][d] {
+				hi++
+			}
+			spanActions(d, els, disp, loads, acts, lo, hi)
+			lo = hi
+		}
+	}
+	// A restraint takes the jump of its action less the point load there:
+	// N⁺ − N⁻ = −P − R, V⁺ − V⁻ = P + R, M⁺ − M⁻ = −C − R.
+	sign := [3]float64{-1, 1, -1}
+	for r, sup := range m.Supports {
+		k := nearest(x, sup.X)
+		for d := Axial; d <= Rotation; d++ {
+			if !held[k][d] {
+				continue
+			}
+			var left, right float64
+			if k > 0 {
+				left = acts[k-1].of(d)[1]
+			}
+			if k < len(els) {
+				right = acts[k].of(d)[0]
+			}
+			reactions[r].Force[d] = sign[d]*(right-left) - loads[k][d]
+		}
+	}
+}
+
+// of returns the action that goes with motion d.
+func (a *stretchActions) of(d Dof) *[2]float64 {
+	switch d {
+	case Axial:
+		return &a.axial
+	case Transverse:
+		return &a.shear
+	}
+	return &a.moment
+}
+
+// spanActions sets the action of motion d on stretches lo..hi−1, which no
+// restraint of d separates: directly on the most flexible one, then by
+// statics outwards. Moments need the shears, so d = Rotation comes last.
+func spanActions(d Dof, els []elementData, disp [][3]float64, loads []keyLoads, acts []stretchActions, lo, hi int) {
+	best, flex := lo, -1.0
+	for j := lo; j < hi; j++ {
+		e := &els[j]
+		f := e.length / e.axialRigidity
+		if d != Axial {
+			f = e.length * e.length * e.length / e.flexuralRigidity
+		}
+		if f > flex {
+			best, flex = j, f
+		}
+	}
+	e := &els[best]
+	if d == Axial {
+		k, f := e.barStiffness(LinearBar), e.barLoads(LinearBar)
+		u := [2]float64{disp[best][Axial], disp[best+1][Axial]}
+		acts[best].axial[0] = -(k[0][0]*u[0] + k[0][1]*u[1] - f[0])
+	} else {
+		k, f := e.beamStiffness(), e.beamLoads()
+		u := [4]float64{disp[best][Transverse], disp[best][Rotation], disp[best+1][Transverse], disp[best+1][Rotation]}
+		row := 0 // V(start) = F_w(start)
+		scale := 1.0
+		if d == Rotation {
+			row, scale = 1, -1 // M(start) = −F_θ(start)
+		}
+		v := -f[row]
+		for b, ub := range u {
+			v += k[row][b] * ub
+		}
+		acts[best].of(d)[0] = scale * v
+	}
+	carry(d, &els[best], &acts[best])
+	for j := best + 1; j < hi; j++ {
+		acts[j].of(d)[0] = acts[j-1].of(d)[1] + across(d, loads[j])
+		carry(d, &els[j], &acts[j])
+	}
+	for j := best - 1; j >= lo; j-- {
+		acts[j].of(d)[1] = acts[j+1].of(d)[0] - across(d, loads[j+1])
+		uncarry(d, &els[j], &acts[j])
+	}
+}
+
+// across is the jump of the action of d at a key point no restraint of d
+// holds: N⁺ − N⁻ = −P, V⁺ − V⁻ = P, M⁺ − M⁻ = −C (springs included in loads).
+func across(d Dof, l keyLoads) float64 {
+	if d == Transverse {
+		return l[d]
+	}
+	return -l[d]
+}
+
+// carry sets the action at the end of a stretch from the one at its start:
+// N' = −p, V' = q, M' = V; the loads are linear, so the integrals are exact.
+func carry(d Dof, e *elementData, a *stretchActions) {
+	h := e.length
+	switch d {
+	case Axial:
+		a.axial[1] = a.axial[0] - h*(e.axialLoad[0]+e.axialLoad[1])/2
+	case Transverse:
+		a.shear[1] = a.shear[0] + h*(e.transverseLoad[0]+e.transverseLoad[1])/2
+	case Rotation:
+		a.moment[1] = a.moment[0] + h*a.shear[0] + h*h*(2*e.transverseLoad[0]+e.transverseLoad[1])/6
+	}
+}
+
+// uncarry is carry backwards: the start from the end.
+func uncarry(d Dof, e *elementData, a *stretchActions) {
+	h := e.length
+	switch d {
+	case Axial:
+		a.axial[0] = a.axial[1] + h*(e.axialLoad[0]+e.axialLoad[1])/2
+	case Transverse:
+		a.shear[0] = a.shear[1] - h*(e.transverseLoad[0]+e.transverseLoad[1])/2
+	case Rotation:
+		a.moment[0] = a.moment[1] - h*a.shear[0] - h*h*(2*e.transverseLoad[0]+e.transverseLoad[1])/6
+	}
+}
