@@ -99,12 +99,23 @@ func (w *Window) mainMenu() *fyne.MainMenu {
 		fyne.NewMenuItem("Redo", w.redo),
 		fyne.NewMenuItem("Delete selected", w.deleteSelected),
 	)
+	studies := fyne.NewMenu("Study",
+		fyne.NewMenuItem("Convergence study", w.runConvergence),
+		fyne.NewMenuItem("Adaptive refinement…", w.runAdaptive),
+		fyne.NewMenuItem("Back to the uniform mesh", w.uniformMesh),
+		fyne.NewMenuItemSeparator(),
+		fyne.NewMenuItem("Check limits…", w.showCheckLimits),
+	)
+	member := fyne.NewMenu("Member",
+		fyne.NewMenuItem("Section calculator…", w.showSectionCalculator),
+		fyne.NewMenuItem("Typical materials…", w.showMaterials),
+	)
 	view := fyne.NewMenu("View",
 		fyne.NewMenuItem("Fit member", w.draw.fit),
 		fyne.NewMenuItem("Zoom in", func() { w.zoom(1.25) }),
 		fyne.NewMenuItem("Zoom out", func() { w.zoom(0.8) }),
 	)
-	return fyne.NewMainMenu(file, edit, view)
+	return fyne.NewMainMenu(file, edit, member, studies, view)
 }
 
 func (w *Window) zoom(f float32) {
@@ -430,6 +441,11 @@ func (w *Window) exportMenu() *fyne.Menu {
 	for _, k := range exportKinds {
 		m.Items = append(m.Items, fyne.NewMenuItem(k.menu, func() { w.export(k.kind) }))
 	}
+	chart := fyne.NewMenuItem("Export convergence chart (PNG)…", func() {
+		w.chooseFile(true, "Export the convergence chart", "PNG file", "png", func(path string) { w.exportTo(path, w.writeConvergenceChart) })
+	})
+	chart.Disabled = w.convergence == nil
+	m.Items = append(m.Items, fyne.NewMenuItemSeparator(), chart)
 	return m
 }
 

@@ -45,6 +45,9 @@ type Window struct {
 	// adaptNodes is the mesh of the last adaptive refinement, solved on
 	// until the model changes; nil for the uniform mesh of Mesh.Elements.
 	adaptNodes []float64
+	// convergence is the last convergence study, for its chart export; nil before one runs.
+	convergence *convergenceStudy
+	studying    bool // a study runs in the background
 	// note is added to the next status message, which may come from the
 	// caller of the function that set it (the name of an edit, say).
 	note string

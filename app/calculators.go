@@ -1,0 +1,230 @@
+package app
+
+import (
+	"fmt"
+	"strconv"
+	"strings"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/dialog"
+	"fyne.io/fyne/v2/layout"
+	"fyne.io/fyne/v2/widget"
+
+	"stave/canvas"
+	"stave/fem"
+	"stave/fem/material"
+	"stave/fem/section"
+	"stave/fem/units"
+)
+
+// sectionShape is one shape of the section calculator.
+type sectionShape struct {
+	name  string
+	dims  []string
+	start []float64 // invented starting dimensions, m, to show the fields' use
+	props func(d []float64) (section.Properties, error)
+}
+
+var sectionShapes = []sectionShape{
+	{"Rectangle", []string{"Width b", "Depth h"}, []float64{0.1, 0.3},
+		func(d []float64) (section.Properties, error) { return section.Rectangle(d[0], d[1]) }},
+	{"Solid round", []string{"Diameter d"}, []float64{0.05},
+		func(d []float64) (section.Properties, error) { return section.SolidRound(d[0]) }},
+	{"Round tube", []string{"Outside diameter D", "Wall thickness t"}, []float64{0.1143, 0.006},
+		func(d []float64) (section.Properties, error) { return section.RoundTube(d[0], d[1]) }},
+	{"Rectangular hollow", []string{"Outside width B", "Outside depth H", "Wall thickness t"}, []float64{0.1, 0.2, 0.008},
+		func(d []float64) (section.Properties, error) { return section.RectangularHollow(d[0], d[1], d[2]) }},
+	{"I shape", []string{"Flange width b", "Depth h", "Flange thickness tf", "Web thickness tw"}, []float64{0.15, 0.3, 0.0107, 0.0071},
+		func(d []float64) (section.Properties, error) { return section.IShape(d[0], d[1], d[2], d[3]) }},
+}
+
+// segmentPicker chooses the segment a calculator fills: the selected one,
+// else the first.
+func (w *Window) segmentPicker() (*widget.Select, func() int) {
+	n := len(w.project.Model.Segments)
+	names := make([]string, n)
+	for i, s := range w.project.Model.Segments {
+		names[i] = fmt.Sprintf("segment %d (x = %s to %s)", i+1, w.units.Format(units.Position, s.Start), w.units.Format(units.Position, s.End))
+	}
+	pick := widget.NewSelect(names, nil)
+	start := 0
+	if w.selected.Kind == canvas.Segment && w.selected.Index < n {
+		start = w.selected.Index
+	}
+	if n > 0 {
+		pick.SetSelectedIndex(start)
+	}
+	return pick, func() int { return pick.SelectedIndex() }
+}
+
+// showSectionCalculator computes A, I and c from a shape's dimensions and
+// fills them into a segment.
+func (w *Window) showSectionCalculator() {
+	if len(w.project.Model.Segments) == 0 {
+		w.setStatus("the section calculator fills a segment: draw a member first")
+		return
+	}
+	segment, which := w.segmentPicker()
+	result := widget.NewLabel("")
+	result.Wrapping = fyne.TextWrapWord
+	form := container.New(layout.NewFormLayout())
+	var entries []*widget.Entry
+	var shape sectionShape
+	var props section.Properties
+	var propsErr error
+	compute := func() {
+		d := make([]float64, len(entries))
+		for i, e := range entries {
+			v, err := w.units.Parse(units.Dimension, e.Text)
+			if err != nil {
+				props, propsErr = section.Properties{}, fmt.Errorf("%s: %v", shape.dims[i], err)
+				result.SetText(propsErr.Error())
+				return
+			}
+			d[i] = v
+		}
+		props, propsErr = shape.props(d)
+		if propsErr != nil {
+			result.SetText(propsErr.Error())
+			return
+		}
+		u := w.units
+		result.SetText(fmt.Sprintf("A = %s    I = %s    c = %s    S = I/c = %s",
+			u.Format(units.Area, props.Area), u.Format(units.SecondMoment, props.SecondMoment),
+			u.Format(units.Dimension, props.FibreDistance), u.Format(units.SectionModulus, props.SectionModulus)))
+	}
+	shapes := make([]string, len(sectionShapes))
+	for i, s := range sectionShapes {
+		shapes[i] = s.name
+	}
+	choose := widget.NewSelect(shapes, func(name string) {
+		for _, s := range sectionShapes {
+			if s.name == name {
+				shape = s
+			}
+		}
+		form.Objects, entries = nil, nil
+		for i, label := range shape.dims {
+			e := widget.NewEntry()
+			e.SetText(w.units.Format(units.Dimension, shape.start[i]))
+			e.OnChanged = func(string) { compute() }
+			entries = append(entries, e)
+			form.Add(widget.NewLabel(label))
+			form.Add(e)
+		}
+		form.Refresh()
+		compute()
+	})
+	choose.SetSelectedIndex(0)
+	fill := widget.NewButton("Fill A, I and c of the segment", func() {
+		if propsErr != nil {
+			w.setStatus("section not filled: %v", propsErr)
+			return
+		}
+		i := which()
+		if w.apply(fmt.Sprintf("set segment %d to a %s section", i+1, strings.ToLower(shape.name)), func(m *fem.Model) error {
+			m.Segments[i].Section = props.Section()
+			return nil
+		}) == nil {
+			w.selectItem(canvas.Ref{Kind: canvas.Segment, Index: i})
+		}
+	})
+	fill.Importance = widget.HighImportance
+	note := widget.NewLabel("Idealised shapes: sharp corners, no root fillets or welds. Tabulated values of rolled sections differ by a few per cent: use them where you have them. Bending is about the axis across the depth.")
+	note.Wrapping = fyne.TextWrapWord
+	content := container.NewVBox(
+		container.NewBorder(nil, nil, widget.NewLabel("Segment"), nil, segment),
+		container.NewBorder(nil, nil, widget.NewLabel("Shape"), nil, choose),
+		form, widget.NewSeparator(), result, fill, note)
+	d := dialog.NewCustom("Section calculator", "Close", content, w.win)
+	d.Resize(fyne.NewSize(560, 480))
+	d.Show()
+}
+
+// showMaterials fills a segment's material from a list of typical ones.
+func (w *Window) showMaterials() {
+	if len(w.project.Model.Segments) == 0 {
+		w.setStatus("the materials list fills a segment: draw a member first")
+		return
+	}
+	segment, which := w.segmentPicker()
+	typical := material.Typical()
+	names := make([]string, len(typical))
+	for i, e := range typical {
+		names[i] = e.Material.Name
+	}
+	detail := widget.NewLabel("")
+	detail.Wrapping = fyne.TextWrapWord
+	var chosen material.Entry
+	pick := widget.NewSelect(names, func(name string) {
+		for _, e := range typical {
+			if e.Material.Name == name {
+				chosen = e
+			}
+		}
+		u, m := w.units, chosen.Material
+		detail.SetText(fmt.Sprintf("E = %s · density %s · α = %s · strength %s\nThe strength is the %s.\nSource: %s.",
+			u.Format(units.Modulus, m.Elastic), u.Format(units.Density, m.Density), u.Format(units.ThermalExpansion, m.ThermalExpansion),
+			u.Format(units.Stress, m.Allowable), chosen.Strength, chosen.Source))
+	})
+	pick.SetSelectedIndex(0)
+	caution := widget.NewLabelWithStyle(material.Caution, fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
+	caution.Importance = widget.WarningImportance
+	caution.Wrapping = fyne.TextWrapWord
+	factor := w.project.View.SafetyFactor
+	if !(factor > 0) {
+		factor = 1
+	}
+	strength := widget.NewLabel(fmt.Sprintf("The strength goes into the segment's allowable stress as it is; the stress check divides it by the safety factor, now %s (Study ▸ Check limits).", units.FormatNumber(factor)))
+	strength.Wrapping = fyne.TextWrapWord
+	fill := widget.NewButton("Fill E, density, α and strength of the segment", func() {
+		i := which()
+		if w.apply(fmt.Sprintf("make segment %d %s", i+1, chosen.Material.Name), func(m *fem.Model) error {
+			m.Segments[i].Material = chosen.Material
+			return nil
+		}) == nil {
+			w.selectItem(canvas.Ref{Kind: canvas.Segment, Index: i})
+		}
+	})
+	fill.Importance = widget.HighImportance
+	content := container.NewVBox(caution,
+		container.NewBorder(nil, nil, widget.NewLabel("Segment"), nil, segment),
+		container.NewBorder(nil, nil, widget.NewLabel("Material"), nil, pick),
+		detail, strength, fill)
+	d := dialog.NewCustom("Typical materials", "Close", content, w.win)
+	d.Resize(fyne.NewSize(620, 420))
+	d.Show()
+}
+
+// showCheckLimits edits the project's deflection limit and safety factor.
+func (w *Window) showCheckLimits() {
+	v := w.project.View
+	ratio, factor := widget.NewEntry(), widget.NewEntry()
+	ratio.SetText(units.FormatNumber(v.DeflectionLimit))
+	factor.SetText(units.FormatNumber(v.SafetyFactor))
+	dialog.ShowForm("Check limits", "Apply", "Cancel", []*widget.FormItem{
+		widget.NewFormItem("Deflection limit: span /", ratio),
+		widget.NewFormItem("Safety factor on allowable stress", factor),
+	}, func(ok bool) {
+		if !ok {
+			return
+		}
+		n, err1 := strconv.ParseFloat(strings.TrimSpace(ratio.Text), 64)
+		f, err2 := strconv.ParseFloat(strings.TrimSpace(factor.Text), 64)
+		if err1 != nil || err2 != nil || !(n > 0) || !(f > 0) {
+			w.setStatus("check limits not changed: type positive numbers, such as 360 and 1.5")
+			return
+		}
+		w.setCheckLimits(n, f)
+	}, w.win)
+}
+
+// setCheckLimits stores the limits and checks again.
+func (w *Window) setCheckLimits(spanRatio, safetyFactor float64) {
+	w.project.View.DeflectionLimit, w.project.View.SafetyFactor = spanRatio, safetyFactor
+	w.resubmit()
+	w.updateTitle()
+	w.setStatus("checks use span/%s and a safety factor of %s (common practice values vary; local codes govern)",
+		units.FormatNumber(spanRatio), units.FormatNumber(safetyFactor))
+}
