@@ -17,6 +17,9 @@ type elementData struct {
 	sectionData
 	axialLoad      [2]float64 // p at start and end, N/m
 	transverseLoad [2]float64 // q at start and end, N/m
+	// points are the point loads strictly inside the element, which only
+	// the key-point mesh has: Solve keeps loads-only key points out of it.
+	points []PointLoad
 }
 
 // gauss3 is the 3-point Gauss–Legendre rule on [0, 1], exact for polynomials
@@ -71,7 +74,8 @@ func (d *elementData) barStiffness(order ElementOrder) localMatrix {
 }
 
 // barLoads is the consistent nodal load vector ∫N·p dx plus the thermal
-// forces ∫N'·EA·αΔT dx = EA·αΔT·(N(end) − N(start)).
+// forces ∫N'·EA·αΔT dx = EA·αΔT·(N(end) − N(start)) and N·P for the point
+// loads inside.
 func (d *elementData) barLoads(order ElementOrder) localVector {
 	var f localVector
 	h := d.length
@@ -85,6 +89,12 @@ func (d *elementData) barLoads(order ElementOrder) localVector {
 	thermal := d.axialRigidity * d.thermalStrain
 	f[0] -= thermal
 	f[order.nodes()-1] += thermal
+	for _, p := range d.points {
+		n, _ := barShape(order, (p.X-d.start)/h, h)
+		for a := range order.nodes() {
+			f[a] += n[a] * p.Axial
+		}
+	}
 	return f
 }
 
@@ -101,9 +111,17 @@ func (d *elementData) beamStiffness() localMatrix {
 	}
 }
 
-// beamLoads is the consistent nodal load vector ∫N·q dx.
+// beamLoads is the consistent nodal load vector ∫N·q dx, plus N·P + N'·C
+// for the point loads inside (the work of a moment C is C·w').
 func (d *elementData) beamLoads() localVector {
-	return hermiteLoads(d.length, d.transverseLoad[0], d.transverseLoad[1])
+	f := hermiteLoads(d.length, d.transverseLoad[0], d.transverseLoad[1])
+	for _, p := range d.points {
+		n, d1, _, _ := hermite((p.X-d.start)/d.length, d.length)
+		for a := range f {
+			f[a] += n[a]*p.Transverse + d1[a]*p.Moment
+		}
+	}
+	return f
 }
 
 // hermiteLoads is ∫N·q dx for the Hermite shape functions of an element of

@@ -1,6 +1,11 @@
 package fem
 
-import "fmt"
+import (
+	"cmp"
+	"fmt"
+	"slices"
+	"sort"
+)
 
 // Fine meshes are solved in a hierarchical basis instead of by assembling
 // and eliminating the fine stiffness matrix, whose condition number grows
@@ -8,10 +13,11 @@ import "fmt"
 // eliminated answer had lost every digit.
 //
 // Between two neighbouring key points (a stretch) the section is constant,
-// the loads are linear and nothing acts at interior nodes. Split the node
-// range [lo, hi] of a stretch at a middle node m and take as the functions
-// of m the shape functions of the two elements [x_lo, x_m] and [x_m, x_hi]:
-// the hat for the bar, the two Hermite cubics for the beam. Every function of
+// distributed loads are linear and nothing restrains the interior nodes.
+// Split the node range [lo, hi] of a stretch at a middle node m and take as
+// the functions of m the shape functions of the two elements [x_lo, x_m]
+// and [x_m, x_hi]: the hat for the bar, the two Hermite cubics for the
+// beam. Every function of
 // a coarser level (the key-point mesh included) is linear (bar) or cubic
 // (beam) on [x_lo, x_hi], and integrating ∫EA·φ'·ψ' or ∫EI·φ''·ψ'' by parts
 // leaves only end terms where φ and φ' vanish: the functions of m are
@@ -26,9 +32,16 @@ import "fmt"
 // The coarser solution on [x_lo, x_hi] is carried down as Taylor data at
 // x_lo (bar slope u'; beam w'' and w'''), updated by each level's
 // coefficients, so slopes, moments and shear forces never come from
-// differences of nearly equal nodal values. Supports, springs and point loads
-// sit at key points, where all hierarchical functions vanish: the reactions
-// of the key-point system are those of the fine mesh.
+// differences of nearly equal nodal values.
+//
+// Supports, springs, segment breaks and distributed-load break points are
+// the key points; all hierarchical functions vanish there, so the reactions
+// of the key-point system are those of the fine mesh. Point loads are nodes
+// of the fine mesh but stay out of the key-point system, where a load close
+// to a support would make a short, stiff stretch: they load it through the
+// consistent forces N·P + N'·C of the stretch they lie in, and the
+// hierarchical functions whose support covers them the same way. Loads do
+// not enter the orthogonality, which is a property of the stiffness alone.
 
 // elementField is what the fields of one element need beyond its end
 // displacements: the derivatives the hierarchy carried down to it.
@@ -55,7 +68,10 @@ type stretchRefiner struct {
 	start                       float64
 	axial, axialSlope           float64 // N/m, N/m²
 	transverse, transverseSlope float64 // N/m, N/m²
-	energy                      float64 // twice the strain energy, J
+	// Point loads inside the stretch, in order, and the node each sits on.
+	points     []PointLoad
+	pointNodes []int
+	energy     float64 // twice the strain energy, J
 }
 
 // refineStretch solves the hierarchical levels of the stretch between fine
@@ -65,6 +81,11 @@ func refineStretch(r *stretchRefiner, d *elementData, lo, hi int) {
 	r.start = d.start
 	r.axial, r.axialSlope = d.axialLoad[0], (d.axialLoad[1]-d.axialLoad[0])/d.length
 	r.transverse, r.transverseSlope = d.transverseLoad[0], (d.transverseLoad[1]-d.transverseLoad[0])/d.length
+	slices.SortFunc(d.points, func(p, q PointLoad) int { return cmp.Compare(p.X, q.X) })
+	r.points, r.pointNodes = d.points, r.pointNodes[:0]
+	for _, p := range d.points {
+		r.pointNodes = append(r.pointNodes, nearest(r.x, p.X))
+	}
 	a, b := r.disp[lo], r.disp[hi]
 	_, _, d2, d3 := hermite(0, d.length)
 	beam := [4]float64{a[Transverse], a[Rotation], b[Transverse], b[Rotation]}
@@ -103,6 +124,11 @@ func (r *stretchRefiner) split(lo, hi int, c taylor) {
 	k22 := 4 * ei * (ia + ib)
 	left, right := hermiteLoads(a, ql, qm), hermiteLoads(b, qm, qh)
 	fw, ft := left[2]+right[0], left[3]+right[1]
+	if len(r.points) > 0 {
+		pu, pw, pt := r.pointsOn(lo, m, hi)
+		cu += pu / (r.axialRigidity * (ia + ib))
+		fw, ft = fw+pw, ft+pt
+	}
 	// The scaled off-diagonal |k12|/√(k11·k22) is at most √3/2, so the
 	// determinant keeps at least a quarter of k11·k22: no cancellation.
 	idet := 1 / (k11*k22 - k12*k12)
@@ -147,6 +173,34 @@ func (r *stretchRefiner) finish(e int, c taylor) {
 	r.fields[e] = f
 }
 
+// pointsOn is the work of the point loads inside (x_lo, x_hi) on the
+// functions of m: the bar's hat and the beam's two Hermite functions.
+func (r *stretchRefiner) pointsOn(lo, m, hi int) (bar, w, theta float64) {
+	first := sort.SearchInts(r.pointNodes, lo+1)
+	for i := first; i < len(r.points) && r.pointNodes[i] < hi; i++ {
+		p, node := r.points[i], r.pointNodes[i]
+		switch {
+		case node == m:
+			bar, w, theta = bar+p.Axial, w+p.Transverse, theta+p.Moment
+		case node < m:
+			h := r.x[m] - r.x[lo]
+			xi := (r.x[node] - r.x[lo]) / h
+			n, d1, _, _ := hermite(xi, h)
+			bar += xi * p.Axial
+			w += n[2]*p.Transverse + d1[2]*p.Moment
+			theta += n[3]*p.Transverse + d1[3]*p.Moment
+		default:
+			h := r.x[hi] - r.x[m]
+			xi := (r.x[node] - r.x[m]) / h
+			n, d1, _, _ := hermite(xi, h)
+			bar += (1 - xi) * p.Axial
+			w += n[0]*p.Transverse + d1[0]*p.Moment
+			theta += n[1]*p.Transverse + d1[1]*p.Moment
+		}
+	}
+	return bar, w, theta
+}
+
 func (r *stretchRefiner) axialAt(x float64) float64 {
 	return r.axial + r.axialSlope*(x-r.start)
 }
@@ -155,9 +209,10 @@ func (r *stretchRefiner) transverseAt(x float64) float64 {
 	return r.transverse + r.transverseSlope*(x-r.start)
 }
 
-// keyNodes returns the index in x of every key point of m, in order.
+// keyNodes returns the index in x of every key point of m but the point
+// loads, in order.
 func keyNodes(m *Model, x []float64) ([]int, error) {
-	keys := keyPoints(m)
+	keys := keyPointsOf(m, false)
 	idx := make([]int, len(keys))
 	for j, k := range keys {
 		idx[j] = nearest(x, k)

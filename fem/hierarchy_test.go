@@ -22,13 +22,13 @@ func solveAssembled(t *testing.T, m *Model, mesh Mesh) assembled {
 	if order == 0 {
 		order = LinearBar
 	}
-	els := elementTable(m, mesh)
+	els, nodal := elementTable(m, mesh, mesh.X)
 	out := assembled{reactions: make([]Reaction, len(m.Supports))}
 	for i, sup := range m.Supports {
 		out.reactions[i] = Reaction{Support: i, X: sup.X}
 	}
 	for _, p := range []system{barSystem{order}, beamSystem{}} {
-		u, cond, err := solveBanded(m, mesh, els, p)
+		u, cond, err := solveBanded(m, mesh, els, nodal, p)
 		if err != nil {
 			t.Fatalf("assembled solve: %v", err)
 		}
@@ -233,7 +233,7 @@ func TestHierarchyStrainEnergy(t *testing.T) {
 		m.Mesh.BarOrder = order
 		s := mustSolve(t, m)
 		ref := solveAssembled(t, m, s.Mesh)
-		els := elementTable(m, s.Mesh)
+		els, _ := elementTable(m, s.Mesh, s.Mesh.X)
 		stride := order.nodes() - 1
 		want := 0.0
 		for e := range els {

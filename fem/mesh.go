@@ -11,7 +11,12 @@ import (
 // keyPoints returns the sorted points that must be nodes: the ends, segment
 // breaks, supports, point loads and every break point of the distributed
 // loads, with points closer than mergeTolerance·L taken as one.
-func keyPoints(m *Model) []float64 {
+func keyPoints(m *Model) []float64 { return keyPointsOf(m, true) }
+
+// keyPointsOf is keyPoints, leaving out the point loads unless withPointLoads.
+// Without them it gives the key-point mesh Solve eliminates: a point load
+// close to a support would otherwise make a short, stiff stretch there.
+func keyPointsOf(m *Model, withPointLoads bool) []float64 {
 	pts := []float64{0, m.Length()}
 	for _, s := range m.Segments {
 		pts = append(pts, s.Start, s.End)
@@ -19,8 +24,10 @@ func keyPoints(m *Model) []float64 {
 	for _, s := range m.Supports {
 		pts = append(pts, s.X)
 	}
-	for _, p := range m.PointLoads {
-		pts = append(pts, p.X)
+	if withPointLoads {
+		for _, p := range m.PointLoads {
+			pts = append(pts, p.X)
+		}
 	}
 	for _, d := range m.DistributedLoad {
 		for _, p := range d.Points {

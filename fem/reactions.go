@@ -1,7 +1,8 @@
 package fem
 
 // Reactions from K·u − f at a support lose digits when a short stretch joins
-// it (a load a few millimetres from a support): the stretch's end forces are
+// it (a distributed load ending a few millimetres from a support, a support
+// next to a change of section): the stretch's end forces are
 // differences of terms EI/h³ times nodal values that the solve can only
 // round. In exact arithmetic every element's end forces balance its own
 // loads, and every node that no rigid restraint holds balances its point
@@ -9,8 +10,8 @@ package fem
 // stretch between two restraints. Taking that stretch to be the most
 // flexible one there (largest h³/EI, h/EA for the bar) and carrying its end
 // actions across the others gives the same reactions as K·u − f, free of
-// the short stretches' round-off. Loads and reactions then balance to
-// round-off by construction.
+// the short stretches' round-off. The forces then balance by construction;
+// the moments as closely as that stretch's end actions are known.
 
 // stretchActions are the section actions just inside both ends of a stretch.
 type stretchActions struct {
@@ -23,16 +24,14 @@ type stretchActions struct {
 type keyLoads [3]float64
 
 // staticReactions fills every support's reaction on the key-point mesh with
-// key nodes x, stretches els and key-point displacements disp.
-func staticReactions(m *Model, x []float64, els []elementData, disp [][3]float64, reactions []Reaction) {
+// key nodes x, stretches els (with the point loads inside them), point loads
+// at the key points and key-point displacements disp.
+func staticReactions(m *Model, x []float64, els []elementData, pointLoads, disp [][3]float64, reactions []Reaction) {
 	nk := len(x)
 	held := make([][3]bool, nk)
 	loads := make([]keyLoads, nk)
-	for _, p := range m.PointLoads {
-		k := nearest(x, p.X)
-		for d := Axial; d <= Rotation; d++ {
-			loads[k][d] += p.component(d)
-		}
+	for k, p := range pointLoads {
+		loads[k] = p
 	}
 	for r, sup := range m.Supports {
 		k := nearest(x, sup.X)
@@ -146,28 +145,40 @@ func across(d Dof, l keyLoads) float64 {
 }
 
 // carry sets the action at the end of a stretch from the one at its start:
-// N' = −p, V' = q, M' = V; the loads are linear, so the integrals are exact.
+// N' = −p, V' = q, M' = V, with the jumps of the point loads inside; the
+// loads are linear, so the integrals are exact.
 func carry(d Dof, e *elementData, a *stretchActions) {
-	h := e.length
-	switch d {
-	case Axial:
-		a.axial[1] = a.axial[0] - h*(e.axialLoad[0]+e.axialLoad[1])/2
-	case Transverse:
-		a.shear[1] = a.shear[0] + h*(e.transverseLoad[0]+e.transverseLoad[1])/2
-	case Rotation:
-		a.moment[1] = a.moment[0] + h*a.shear[0] + h*h*(2*e.transverseLoad[0]+e.transverseLoad[1])/6
-	}
+	a.of(d)[1] = a.of(d)[0] + change(d, e, a.shear[0])
 }
 
-// uncarry is carry backwards: the start from the end.
+// uncarry is carry backwards: the start from the end. Moments need the
+// shear at the start, which the shear pass has set.
 func uncarry(d Dof, e *elementData, a *stretchActions) {
+	a.of(d)[0] = a.of(d)[1] - change(d, e, a.shear[0])
+}
+
+// change is the action of d at the end of stretch e less the one at its
+// start; shear is V at the start (used for moments only).
+func change(d Dof, e *elementData, shear float64) float64 {
 	h := e.length
+	var c float64
 	switch d {
 	case Axial:
-		a.axial[0] = a.axial[1] + h*(e.axialLoad[0]+e.axialLoad[1])/2
+		c = -h * (e.axialLoad[0] + e.axialLoad[1]) / 2
 	case Transverse:
-		a.shear[0] = a.shear[1] - h*(e.transverseLoad[0]+e.transverseLoad[1])/2
+		c = h * (e.transverseLoad[0] + e.transverseLoad[1]) / 2
 	case Rotation:
-		a.moment[0] = a.moment[1] - h*a.shear[0] - h*h*(2*e.transverseLoad[0]+e.transverseLoad[1])/6
+		c = h*shear + h*h*(2*e.transverseLoad[0]+e.transverseLoad[1])/6
 	}
+	for _, p := range e.points {
+		switch d {
+		case Axial:
+			c -= p.Axial
+		case Transverse:
+			c += p.Transverse
+		case Rotation:
+			c += p.Transverse*(e.start+h-p.X) - p.Moment
+		}
+	}
+	return c
 }

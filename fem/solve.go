@@ -105,14 +105,14 @@ func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
 		keyX[j] = mesh.X[i]
 	}
 	coarse := meshOn(m, keyX)
-	stretches := elementTable(m, coarse)
+	stretches, keyPointLoads := elementTable(m, coarse, mesh.X)
 	s.Reactions = make([]Reaction, len(m.Supports))
 	for i, sup := range m.Supports {
 		s.Reactions[i] = Reaction{Support: i, X: sup.X}
 	}
 	s.Displacement = make([][3]float64, len(mesh.X))
 	for _, p := range []system{barSystem{LinearBar}, beamSystem{}} {
-		u, cond, err := solveBanded(m, coarse, stretches, p)
+		u, cond, err := solveBanded(m, coarse, stretches, keyPointLoads, p)
 		if err != nil {
 			return nil, err
 		}
@@ -130,7 +130,7 @@ func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
 	for j, i := range keys {
 		keyDisp[j] = s.Displacement[i]
 	}
-	staticReactions(m, keyX, stretches, keyDisp, s.Reactions)
+	staticReactions(m, keyX, stretches, keyPointLoads, keyDisp, s.Reactions)
 	s.fields = make([]elementField, len(mesh.Elements))
 	r := stretchRefiner{x: mesh.X, disp: s.Displacement, fields: s.fields, order: s.barOrder}
 	depth := 0
@@ -196,11 +196,12 @@ func (beamSystem) local(d *elementData) (localMatrix, localVector) {
 	return d.beamStiffness(), d.beamLoads()
 }
 
-// solveBanded assembles problem p on mesh (with element data els), solves
+// solveBanded assembles problem p on mesh (with element data els and point
+// loads at the nodes nodal), solves
 // it by BandLDL and returns the unknowns and the condition estimate of the
 // scaled matrix. Solve uses it for the key-point mesh; on a fine mesh it is
 // the plain assembled solution.
-func solveBanded(m *Model, mesh Mesh, els []elementData, p system) ([]float64, float64, error) {
+func solveBanded(m *Model, mesh Mesh, els []elementData, nodal [][3]float64, p system) ([]float64, float64, error) {
 	n, kb := p.size(len(els))
 	a := NewSymBand(n, kb)
 	rhs := make([]float64, n)
@@ -214,10 +215,9 @@ func solveBanded(m *Model, mesh Mesh, els []elementData, p system) ([]float64, f
 			}
 		}
 	}
-	for _, pl := range m.PointLoads {
-		node := nearest(mesh.X, pl.X)
+	for node, load := range nodal {
 		for mi, d := range p.motions() {
-			rhs[p.nodeDof(node, mi)] += pl.component(d)
+			rhs[p.nodeDof(node, mi)] += load[d]
 		}
 	}
 	type prescribed struct {
@@ -296,9 +296,14 @@ func (p PointLoad) component(d Dof) float64 {
 	return [3]float64{p.Axial, p.Transverse, p.Moment}[d]
 }
 
-// elementTable gathers each element's properties and the loads along it.
-func elementTable(m *Model, mesh Mesh) []elementData {
+// elementTable gathers each element's properties and the loads along it,
+// and returns the point loads at each node apart. A point load is placed at
+// the node of fine that holds it (so the key-point mesh and the fine mesh
+// see it at the same x); when no node of mesh is there, it lies inside an
+// element.
+func elementTable(m *Model, mesh Mesh, fine []float64) ([]elementData, [][3]float64) {
 	els := make([]elementData, len(mesh.Elements))
+	nodal := make([][3]float64, len(mesh.X))
 	sections := sectionTable(m)
 	for i, e := range mesh.Elements {
 		seg := m.Segments[e.Segment]
@@ -310,6 +315,21 @@ func elementTable(m *Model, mesh Mesh) []elementData {
 			axialLoad:      [2]float64{weight * m.Gravity[0], weight * m.Gravity[0]},
 			transverseLoad: [2]float64{weight * m.Gravity[1], weight * m.Gravity[1]},
 		}
+	}
+	for _, p := range m.PointLoads {
+		p.X = fine[nearest(fine, p.X)]
+		node := nearest(mesh.X, p.X)
+		if mesh.X[node] == p.X {
+			for d := Axial; d <= Rotation; d++ {
+				nodal[node][d] += p.component(d)
+			}
+			continue
+		}
+		e := node
+		if p.X < mesh.X[node] {
+			e--
+		}
+		els[e].points = append(els[e].points, p)
 	}
 	for _, d := range m.DistributedLoad {
 		for k := 1; k < len(d.Points); k++ {
@@ -325,7 +345,7 @@ func elementTable(m *Model, mesh Mesh) []elementData {
 			}
 		}
 	}
-	return els
+	return els, nodal
 }
 
 // equilibrium sums the applied loads (exact integrals of the model's loads)
