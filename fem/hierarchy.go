@@ -15,19 +15,19 @@ import (
 // Between two neighbouring key points (a stretch) the section is constant,
 // distributed loads are linear and nothing restrains the interior nodes.
 // Split the node range [lo, hi] of a stretch at a middle node m and take as
-// the functions of m the shape functions of the two elements [x_lo, x_m]
-// and [x_m, x_hi]: the hat for the bar, the two Hermite cubics for the
-// beam. Every function of
-// a coarser level (the key-point mesh included) is linear (bar) or cubic
-// (beam) on [x_lo, x_hi], and integrating ∫EA·φ'·ψ' or ∫EI·φ''·ψ'' by parts
-// leaves only end terms where φ and φ' vanish: the functions of m are
-// energy-orthogonal to all coarser ones, and those of one level have
-// disjoint supports. Recursing on [lo, m] and [m, hi] gives a basis of the
-// fine space in which the stiffness matrix is block diagonal: the key-point
-// system, then a 1×1 (bar) and a 2×2 (beam) system per interior node. Each
-// is well conditioned; the key-point system is solved by BandLDL.
-// Quadratic bars add one bubble per element, orthogonal to every piecewise
-// linear function (its derivative integrates to zero on the element).
+// the functions of m the shape functions of the two elements [x_lo, x_m] and
+// [x_m, x_hi]: the hat for the bar, the two Hermite cubics for the beam.
+// Every function of a coarser level (the key-point mesh included) is linear
+// (bar) or cubic (beam) on [x_lo, x_hi], and integrating ∫EA·φ'·ψ' or
+// ∫EI·φ''·ψ'' by parts leaves only end terms where φ and φ' vanish: the
+// functions of m are energy-orthogonal to all coarser ones, and those of one
+// level have disjoint supports. Recursing on [lo, m] and [m, hi] gives a
+// basis of the fine space in which the stiffness matrix is block diagonal:
+// the key-point system, then a 1×1 (bar) and a 2×2 (beam) system per
+// interior node. Each is well conditioned; the key-point system is solved by
+// BandLDL. Quadratic bars add one bubble per element, orthogonal to every
+// piecewise linear function (its derivative integrates to zero on the
+// element).
 //
 // The coarser solution on [x_lo, x_hi] is carried down as Taylor data at
 // x_lo (bar slope u'; beam w'' and w'''), updated by each level's
