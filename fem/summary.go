@@ -77,6 +77,46 @@ var summaryQuantities = []struct {
 // about this many points in all, and never fewer than the element ends.
 const summarySamples = 20000
 
+// extremes walks the elements once, a few points each (only the ends on fine
+// meshes), and keeps the running largest and smallest value of every
+// reported quantity, so its memory does not grow with the mesh.
+func extremes(s *Solution) []Extreme {
+	out := make([]Extreme, len(summaryQuantities))
+	for i, q := range summaryQuantities {
+		out[i] = Extreme{Quantity: q.name, Unit: q.unit, Max: math.Inf(-1), Min: math.Inf(1)}
+	}
+	n := len(s.Mesh.Elements)
+	if n == 0 || len(s.fields) == 0 {
+		for i := range out {
+			out[i].Max, out[i].Min = 0, 0
+		}
+		return out
+	}
+	perElement := 1
+	if summarySamples/n > 1 {
+		perElement = min(summarySamples/n, 8)
+	}
+	for e, el := range s.Mesh.Elements {
+		for j := 0; j <= perElement; j++ {
+			x := el.Start + (el.End-el.Start)*float64(j)/float64(perElement)
+			if j == perElement {
+				x = s.Mesh.X[e+1]
+			}
+			f := s.inElement(e, x)
+			for i, q := range summaryQuantities {
+				v := q.get(f)
+				if v > out[i].Max {
+					out[i].Max, out[i].XMax = v, f.X
+				}
+				if v < out[i].Min {
+					out[i].Min, out[i].XMin = v, f.X
+				}
+			}
+		}
+	}
+	return out
+}
+
 // Summarize collects reactions, extremes with positions, equilibrium, mesh
 // size and, when e is not nil, the error against the exact solution.
 func Summarize(s *Solution, e *Exact) Summary {
@@ -90,27 +130,7 @@ func Summarize(s *Solution, e *Exact) Summary {
 			Support: r.Support + 1, Kind: kind, X: r.X, Components: components(r.Force),
 		})
 	}
-	perElement := 1
-	if n := len(s.Mesh.Elements); n > 0 && summarySamples/n > 1 {
-		perElement = min(summarySamples/n, 8)
-	}
-	samples := s.Sample(perElement)
-	for _, q := range summaryQuantities {
-		ex := Extreme{Quantity: q.name, Unit: q.unit, Max: math.Inf(-1), Min: math.Inf(1)}
-		for _, f := range samples {
-			v := q.get(f)
-			if v > ex.Max {
-				ex.Max, ex.XMax = v, f.X
-			}
-			if v < ex.Min {
-				ex.Min, ex.XMin = v, f.X
-			}
-		}
-		if len(samples) == 0 {
-			ex.Max, ex.Min = 0, 0
-		}
-		sum.Extremes = append(sum.Extremes, ex)
-	}
+	sum.Extremes = extremes(s)
 	eq := s.Equilibrium
 	sum.Equilibrium = EquilibriumSummary{
 		Applied:   components(eq.Applied),
