@@ -10,6 +10,8 @@ import (
 	"fyne.io/fyne/v2"
 	fynecanvas "fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/layout"
+	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
@@ -96,19 +98,19 @@ func (w *Window) build() {
 
 	c.properties = container.NewVBox()
 	c.readout = newReadout()
+	// Rows are plain coloured text, half the height of labels, so the list
+	// shows several checks at once.
 	c.checkList = widget.NewList(
 		func() int { return len(w.checks) },
 		func() fyne.CanvasObject {
-			l := widget.NewLabel("")
-			l.Truncation = fyne.TextTruncateEllipsis
-			return l
+			return container.New(layout.NewCustomPaddedLayout(3, 3, 6, 0), fynecanvas.NewText("", theme.Color(theme.ColorNameForeground)))
 		},
 		func(i widget.ListItemID, o fyne.CanvasObject) {
 			r := w.checks[i]
-			l := o.(*widget.Label)
-			l.SetText(r.status + "  " + r.name)
-			l.Importance = r.importance
-			l.Refresh()
+			t := o.(*fyne.Container).Objects[0].(*fynecanvas.Text)
+			t.Text = r.status + "  " + r.name
+			t.Color = importanceColour(r.importance)
+			t.Refresh()
 		})
 	c.checkDetail = widget.NewLabel("")
 	c.checkDetail.Wrapping = fyne.TextWrapWord
@@ -119,12 +121,14 @@ func (w *Window) build() {
 	}
 	c.checkList.OnUnselected = func(widget.ListItemID) { w.selectCheck(checkRow{}) }
 
+	readoutAndChecks := container.NewVSplit(
+		container.NewBorder(heading("At the mouse"), nil, nil, nil, container.NewScroll(c.readout.grid)),
+		container.NewBorder(heading("Checks"), minHeight(90, container.NewVScroll(c.checkDetail)), nil, nil, c.checkList))
+	readoutAndChecks.SetOffset(0.4)
 	side := container.NewVSplit(
 		container.NewVScroll(c.properties),
-		container.NewVSplit(
-			container.NewBorder(heading("At the mouse"), nil, nil, nil, container.NewScroll(c.readout.grid)),
-			container.NewBorder(heading("Checks"), minHeight(90, container.NewVScroll(c.checkDetail)), nil, nil, c.checkList)))
-	side.SetOffset(0.3)
+		readoutAndChecks)
+	side.SetOffset(0.25)
 
 	center := container.NewBorder(c.settingsBar(), c.layerBar(), nil, nil, w.draw)
 	warning := widget.NewLabelWithStyle(caution, fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
@@ -138,6 +142,22 @@ func (w *Window) build() {
 	w.win.SetMainMenu(w.mainMenu())
 	w.addShortcuts()
 	w.setTool(toolPick)
+}
+
+// importanceColour is the theme colour of text of importance i.
+func importanceColour(i widget.Importance) color.Color {
+	name := theme.ColorNameForeground
+	switch i {
+	case widget.DangerImportance:
+		name = theme.ColorNameError
+	case widget.WarningImportance:
+		name = theme.ColorNameWarning
+	case widget.SuccessImportance:
+		name = theme.ColorNameSuccess
+	case widget.LowImportance:
+		name = theme.ColorNameDisabled
+	}
+	return theme.Color(name)
 }
 
 // minHeight gives o at least h pixels of height.
@@ -399,45 +419,51 @@ type quantity struct {
 }
 
 var readoutQuantities = []quantity{
-	{"axial displacement u", units.Deflection, func(f fem.Fields) float64 { return f.AxialDisplacement }},
-	{"deflection w", units.Deflection, func(f fem.Fields) float64 { return f.Deflection }},
-	{"rotation θ", units.Rotation, func(f fem.Fields) float64 { return f.Rotation }},
-	{"axial force N", units.Force, func(f fem.Fields) float64 { return f.AxialForce }},
-	{"shear force V", units.Force, func(f fem.Fields) float64 { return f.ShearForce }},
-	{"bending moment M", units.Moment, func(f fem.Fields) float64 { return f.BendingMoment }},
-	{"axial stress N/A", units.Stress, func(f fem.Fields) float64 { return f.AxialStress }},
-	{"bending stress Mc/I", units.Stress, func(f fem.Fields) float64 { return f.BendingStress }},
-	{"combined stress", units.Stress, func(f fem.Fields) float64 { return f.CombinedStress }},
+	{"u axial", units.Deflection, func(f fem.Fields) float64 { return f.AxialDisplacement }},
+	{"w deflection", units.Deflection, func(f fem.Fields) float64 { return f.Deflection }},
+	{"θ rotation", units.Rotation, func(f fem.Fields) float64 { return f.Rotation }},
+	{"N axial force", units.Force, func(f fem.Fields) float64 { return f.AxialForce }},
+	{"V shear force", units.Force, func(f fem.Fields) float64 { return f.ShearForce }},
+	{"M bending", units.Moment, func(f fem.Fields) float64 { return f.BendingMoment }},
+	{"σ axial N/A", units.Stress, func(f fem.Fields) float64 { return f.AxialStress }},
+	{"σ bending Mc/I", units.Stress, func(f fem.Fields) float64 { return f.BendingStress }},
+	{"σ combined", units.Stress, func(f fem.Fields) float64 { return f.CombinedStress }},
 }
 
 func newReadout() *readout {
 	return &readout{grid: widget.NewTextGrid()}
 }
 
-// readoutLine lays out one line of the readout in fixed columns.
-func readoutLine(name, fe, exact string) string {
-	return fmt.Sprintf("%-19s%12s %12s", name, fe, exact)
+// readoutLine lays out one line of the readout in fixed columns narrow
+// enough for the side panel: the unit is written once, after both values.
+func readoutLine(name, fe, exact, unit string) string {
+	return fmt.Sprintf("%-14s %9s %9s %s", name, fe, exact, unit)
+}
+
+// shortNumber is units.FormatNumber with the exponent's zeros dropped
+// ("-3.208e-4"), so every value fits nine characters.
+func shortNumber(v float64) string {
+	s := units.FormatNumber(v)
+	return strings.NewReplacer("e-0", "e-", "e+0", "e", "e+", "e").Replace(s)
 }
 
 func (r *readout) show(w *Window) {
 	d := w.draw
 	a := w.result
 	m := &w.project.Model
-	lines := []string{readoutLine("", "FE", "exact")}
 	if !d.hovering || a == nil || a.solution == nil || d.hoverX < 0 || d.hoverX > m.Length() {
-		lines = append(lines, "", "Move the mouse over the member to read", "every result at that point.")
-		r.grid.SetText(strings.Join(lines, "\n"))
+		r.grid.SetText(readoutLine("", "FE", "exact", "") + "\n\nMove the mouse over the member to read\nevery result at that point.")
 		return
 	}
 	x := d.hoverX
 	fe := a.solution.At(x, fem.Right)
-	lines = append(lines, readoutLine("at x", w.units.Format(units.Position, x), ""))
+	lines := []string{readoutLine("x = "+w.units.Format(units.Position, x), "FE", "exact", "")}
 	for _, q := range readoutQuantities {
 		exact := "—"
 		if a.exact != nil {
-			exact = w.units.Format(q.q, q.get(a.exact.At(x, fem.Right)))
+			exact = shortNumber(w.units.ToDisplay(q.q, q.get(a.exact.At(x, fem.Right))))
 		}
-		lines = append(lines, readoutLine(q.name, w.units.Format(q.q, q.get(fe)), exact))
+		lines = append(lines, readoutLine(q.name, shortNumber(w.units.ToDisplay(q.q, q.get(fe))), exact, w.units.Unit(q.q).Symbol))
 	}
 	r.grid.SetText(strings.Join(lines, "\n"))
 }

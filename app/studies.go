@@ -109,52 +109,63 @@ func rateText(v float64) string {
 	return fmt.Sprintf("%.2f", v)
 }
 
-// convergenceText is the study as a fixed-width table with the fitted and
-// theoretical rates.
-func convergenceText(c *convergenceStudy) string {
+// convergenceTable is the study as a fixed-width table.
+func convergenceTable(t study.Table) string {
 	var b strings.Builder
 	row := func(cols ...string) {
-		fmt.Fprintf(&b, "%9s %12s %12s %12s   %6s %6s %6s\n", cols[0], cols[1], cols[2], cols[3], cols[4], cols[5], cols[6])
+		fmt.Fprintf(&b, "%8s %11s %11s %11s %7s %7s %7s\n", cols[0], cols[1], cols[2], cols[3], cols[4], cols[5], cols[6])
 	}
 	row("elements", "max stress", "L2", "energy", "rate σ", "rate L2", "rate E")
-	for _, r := range c.table.Rows {
+	for _, r := range t.Rows {
 		row(fmt.Sprint(r.Elements), percent(r.MaxStress), percent(r.L2), percent(r.Energy),
 			rateText(r.StressRate), rateText(r.L2Rate), rateText(r.EnergyRate))
 	}
+	return strings.TrimSuffix(b.String(), "\n")
+}
+
+// convergenceNotes gives the fitted rates beside those theory predicts.
+func convergenceNotes(c *convergenceStudy) string {
 	t := c.table
-	fmt.Fprintf(&b, "\nFitted rates (error ∝ hʳ): stress %s, L2 %s, energy %s.\n", rateText(t.StressRate), rateText(t.L2Rate), rateText(t.EnergyRate))
-	bar := "linear bars: energy and stress 1, L2 2"
+	bar := "linear bars 1 and 2"
 	if c.model.Mesh.BarOrder == fem.QuadraticBar {
-		bar = "quadratic bars: energy and stress 2, L2 3"
+		bar = "quadratic bars 2 and 3"
 	}
-	fmt.Fprintf(&b, "Theory for smooth solutions (Strang & Fix; Hughes): cubic beams: energy and stress 2, L2 4; %s.\n", bar)
-	b.WriteString("A member loaded both ways converges at the slower rate. \"exact\" means at round-off:\n" +
-		"one-dimensional elements are often exact at the nodes, and a rate needs two errors above round-off.")
-	return b.String()
+	return fmt.Sprintf("Fitted rates (error ∝ h^rate, h the element length): stress %s, L2 %s, energy %s.\n\n"+
+		"Theory for smooth solutions (Strang & Fix; Hughes; from memory), energy and stress, then L2: "+
+		"cubic beams 2 and 4, %s. A member loaded both ways converges at the slower rate.\n\n"+
+		"\"exact\" means at round-off: one-dimensional elements are often exact at the nodes, and a rate needs two errors above round-off.",
+		rateText(t.StressRate), rateText(t.L2Rate), rateText(t.EnergyRate), bar)
 }
 
 // showConvergence shows the last convergence study: table, rates and chart.
 func (w *Window) showConvergence() {
 	c := w.convergence
-	intro := widget.NewLabel("Relative errors against the exact solution on meshes with 1, 2, 4, … elements between key points.")
-	intro.Wrapping = fyne.TextWrapWord
+	wrapped := func(s string) *widget.Label {
+		l := widget.NewLabel(s)
+		l.Wrapping = fyne.TextWrapWord
+		return l
+	}
 	table := widget.NewTextGrid()
-	table.SetText(convergenceText(c))
-	objects := []fyne.CanvasObject{intro, table}
+	table.SetText(convergenceTable(c.table))
+	left := container.NewVBox(table, wrapped(convergenceNotes(c)))
+	if !reflect.DeepEqual(c.model, w.project.Model) {
+		left.Add(wrapped("The model has changed since this study: run it again to see the current one."))
+	}
+	var right fyne.CanvasObject
 	var chart bytes.Buffer
 	if err := canvas.WriteConvergenceChart(&chart, "png", convergenceRows(c.table)); err == nil {
 		img := fynecanvas.NewImageFromResource(fyne.NewStaticResource("convergence.png", chart.Bytes()))
 		img.FillMode = fynecanvas.ImageFillContain
-		img.SetMinSize(fyne.NewSize(560, 385))
-		objects = append(objects, img)
+		img.SetMinSize(fyne.NewSize(500, 344))
+		right = img
 	} else {
-		objects = append(objects, widget.NewLabel("No chart: "+err.Error()))
+		right = wrapped("No chart: " + err.Error())
 	}
-	if !reflect.DeepEqual(c.model, w.project.Model) {
-		objects = append(objects, widget.NewLabel("The model has changed since this study: run it again to see the current one."))
-	}
-	d := dialog.NewCustom("Convergence study", "Close", container.NewVScroll(container.NewVBox(objects...)), w.win)
-	d.Resize(fyne.NewSize(820, 720))
+	content := container.NewBorder(
+		wrapped("Relative errors against the exact solution on meshes with 1, 2, 4, … elements between key points."),
+		nil, nil, right, left)
+	d := dialog.NewCustom("Convergence study", "Close", content, w.win)
+	d.Resize(fyne.NewSize(1160, 520))
 	d.Show()
 }
 

@@ -29,9 +29,11 @@ func TestConvergenceStudy(t *testing.T) {
 	if len(rows) < 3 || rows[len(rows)-1].Elements <= rows[0].Elements {
 		t.Fatalf("convergence table %+v: want at least three meshes, growing", rows)
 	}
-	text := convergenceText(w.convergence)
-	if !strings.Contains(text, "Fitted rates") || strings.Count(text, "\n") < len(rows)+2 {
-		t.Errorf("convergence text lacks rows or rates:\n%s", text)
+	if table := convergenceTable(w.convergence.table); strings.Count(table, "\n") != len(rows) {
+		t.Errorf("convergence table has %d lines for %d meshes:\n%s", strings.Count(table, "\n")+1, len(rows), table)
+	}
+	if notes := convergenceNotes(w.convergence); !strings.Contains(notes, "Fitted rates") || !strings.Contains(notes, "cubic beams 2 and 4") {
+		t.Errorf("convergence notes lack the fitted or theory rates: %s", notes)
 	}
 	if err := w.writeConvergenceChart(&chart); err != nil || !bytes.HasPrefix(chart.Bytes(), []byte("\x89PNG")) {
 		t.Errorf("convergence chart: %v, starts %q", err, chart.Bytes()[:min(chart.Len(), 4)])
