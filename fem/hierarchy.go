@@ -3,6 +3,7 @@ package fem
 import (
 	"cmp"
 	"fmt"
+	"math"
 	"slices"
 	"sort"
 )
@@ -72,6 +73,9 @@ type stretchRefiner struct {
 	points     []PointLoad
 	pointNodes []int
 	energy     float64 // twice the strain energy, J
+	// largest is the largest magnitude of the results read off the
+	// elements (displacements, actions, stresses), NaN if any is NaN.
+	largest float64
 }
 
 // refineStretch solves the hierarchical levels of the stretch between fine
@@ -171,6 +175,11 @@ func (r *stretchRefiner) finish(e int, c taylor) {
 	bend := c.curvature*c.curvature + h*c.third*(c.curvature+h*c.third/3)
 	r.energy += h * (r.axialRigidity*bar + r.flexuralRigidity*bend)
 	r.fields[e] = f
+	d := r.disp[e]
+	axial := r.axialRigidity * (math.Abs(strain) + 4*math.Abs(f.bubble)/h)
+	moment := r.flexuralRigidity * (math.Abs(c.curvature) + h*math.Abs(c.third))
+	r.largest = max(r.largest, math.Abs(d[Axial]), math.Abs(d[Transverse]), math.Abs(d[Rotation]),
+		axial, moment, r.flexuralRigidity*math.Abs(c.third), axial/r.area+moment*r.fibre/r.secondMoment)
 }
 
 // pointsOn is the work of the point loads inside (x_lo, x_hi) on the

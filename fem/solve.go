@@ -139,9 +139,30 @@ func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
 		depth = max(depth, bits.Len(uint(keys[j+1]-keys[j]-1)))
 	}
 	s.StrainEnergy = 0.5 * r.energy
+	if err := checkFinite(&r, s); err != nil {
+		return nil, err
+	}
 	s.Condition += levelRoundOff * float64(depth)
 	s.Equilibrium = equilibrium(m, s.Reactions)
 	return s, nil
+}
+
+// checkFinite refuses results that overflowed float64, which validated but
+// extreme inputs (E of 1e-300 Pa, a moment of 1e308 N·m) can produce.
+func checkFinite(r *stretchRefiner, s *Solution) error {
+	largest := r.largest
+	for _, d := range s.Displacement[len(s.Displacement)-1] {
+		largest = max(largest, math.Abs(d))
+	}
+	for _, re := range s.Reactions {
+		for _, f := range re.Force {
+			largest = max(largest, math.Abs(f))
+		}
+	}
+	if !isFinite(largest) || !isFinite(s.StrainEnergy) {
+		return errors.New("the results are too large for floating point (a displacement, force, moment or stress is infinite or undefined): check the units and magnitudes of the section, material, springs and loads")
+	}
+	return nil
 }
 
 // sectionTable gathers the section data of every segment.
