@@ -45,59 +45,159 @@ const negligible = 1e-9
 // The energy norm is sqrt(∫ EA·(ε_h − ε)² + EI·(κ_h − κ)² dx) with ε = u' − αΔT
 // and κ = w″, computed as (N_h − N)²/EA + (M_h − M)²/EI. A nil argument gives
 // the zero value.
+//
+// One walk over the elements does all of it: each point is evaluated in its
+// own element, and the exact solution on the stretch holding the element
+// (elements never cross a key point), so nothing is searched for.
 func Compare(s *Solution, e *Exact) ErrorNorms {
 	var out ErrorNorms
-	if s == nil || e == nil {
+	if s == nil || e == nil || len(e.stretches) == 0 {
 		return out
 	}
-	var maxStress, stressTerms, stressTermsFE float64
-	for _, el := range s.Mesh.Elements {
-		for j := 0; j <= comparePoints; j++ {
-			x, side := el.Start+(el.End-el.Start)*float64(j)/comparePoints, Right
-			if j == comparePoints {
-				x, side = el.End, Left
-			}
-			h, ex := s.At(x, side), e.At(x, side)
-			out.MaxDeflection = math.Max(out.MaxDeflection, math.Abs(h.Deflection-ex.Deflection))
-			out.MaxAxial = math.Max(out.MaxAxial, math.Abs(h.AxialDisplacement-ex.AxialDisplacement))
-			out.MaxStress = math.Max(out.MaxStress, math.Abs(h.CombinedStress-ex.CombinedStress))
-			maxStress = math.Max(maxStress, math.Abs(ex.CombinedStress))
-			sec := s.Model.Segments[el.Segment].Section
-			na, ma := e.actionMagnitudes(x, side)
-			stressTerms = math.Max(stressTerms, na/sec.Area+ma*sec.FibreDistance/sec.SecondMoment)
+	var gauss [gaussPoints]struct{ xi, w float64 }
+	{
+		xs, ws := make([]float64, gaussPoints), make([]float64, gaussPoints)
+		quad.Legendre{}.FixedLocations(xs, ws, 0, 1)
+		for q := range gauss {
+			gauss[q].xi, gauss[q].w = xs[q], ws[q]
 		}
 	}
+	exact := make([]stretchPolynomials, len(e.stretches))
+	tolerance := mergeTolerance * e.keys[len(e.keys)-1]
+	for j := range exact {
+		exact[j] = newStretchPolynomials(&e.stretches[j], tolerance)
+	}
+	var maxStress, stressTerms, stressTermsFE float64
 	// Squared integrals: displacement error, exact and finite element
 	// displacements; energy of the error, of the exact and of the finite
 	// element solution, and of the terms that make the exact N and M.
 	var dispErr, disp, dispFE, energyErr, energy, energyTerms, energyTermsFE float64
-	xs, ws := make([]float64, gaussPoints), make([]float64, gaussPoints)
-	for _, el := range s.Mesh.Elements {
+	j := 0
+	for i, el := range s.Mesh.Elements {
+		h := el.End - el.Start
+		for mid := el.Start + h/2; j+1 < len(exact) && exact[j+1].start <= mid; {
+			j++
+		}
+		ex := &exact[j]
 		seg := s.Model.Segments[el.Segment]
-		ea := seg.Material.Elastic * seg.Section.Area
-		ei := seg.Material.Elastic * seg.Section.SecondMoment
-		na, ma := s.actionMagnitudes(el)
-		energyTermsFE += (na*na/ea + ma*ma/ei) * (el.End - el.Start)
 		sec := seg.Section
+		for k := 0; k <= comparePoints; k++ {
+			x := el.Start + (el.End-el.Start)*float64(k)/comparePoints
+			if k == comparePoints {
+				x = el.End
+			}
+			f, g := s.inElement(i, x), ex.at(x)
+			out.MaxDeflection = math.Max(out.MaxDeflection, math.Abs(f.Deflection-g.deflection))
+			out.MaxAxial = math.Max(out.MaxAxial, math.Abs(f.AxialDisplacement-g.axialDisplacement))
+			out.MaxStress = math.Max(out.MaxStress, math.Abs(f.CombinedStress-g.stress))
+			maxStress = math.Max(maxStress, math.Abs(g.stress))
+			stressTerms = math.Max(stressTerms, g.axialTerms/sec.Area+g.bendingTerms*sec.FibreDistance/sec.SecondMoment)
+		}
+		ea := seg.Material.Elastic * sec.Area
+		ei := seg.Material.Elastic * sec.SecondMoment
+		na, ma := s.actionMagnitudes(el)
+		energyTermsFE += (na*na/ea + ma*ma/ei) * h
 		stressTermsFE = math.Max(stressTermsFE, na/sec.Area+ma*sec.FibreDistance/sec.SecondMoment)
-		quad.Legendre{}.FixedLocations(xs, ws, el.Start, el.End)
-		for q, x := range xs {
-			h, ex := s.At(x, Right), e.At(x, Right)
-			du, dw := h.AxialDisplacement-ex.AxialDisplacement, h.Deflection-ex.Deflection
-			dn, dm := h.AxialForce-ex.AxialForce, h.BendingMoment-ex.BendingMoment
-			dispErr += ws[q] * (du*du + dw*dw)
-			disp += ws[q] * (ex.AxialDisplacement*ex.AxialDisplacement + ex.Deflection*ex.Deflection)
-			dispFE += ws[q] * (h.AxialDisplacement*h.AxialDisplacement + h.Deflection*h.Deflection)
-			energyErr += ws[q] * (dn*dn/ea + dm*dm/ei)
-			energy += ws[q] * (ex.AxialForce*ex.AxialForce/ea + ex.BendingMoment*ex.BendingMoment/ei)
-			na, ma := e.actionMagnitudes(x, Right)
-			energyTerms += ws[q] * (na*na/ea + ma*ma/ei)
+		for _, q := range gauss {
+			x, w := el.Start+h*q.xi, h*q.w
+			f, g := s.inElement(i, x), ex.at(x)
+			du, dw := f.AxialDisplacement-g.axialDisplacement, f.Deflection-g.deflection
+			dn, dm := f.AxialForce-g.axialForce, f.BendingMoment-g.bendingMoment
+			dispErr += w * (du*du + dw*dw)
+			disp += w * (g.axialDisplacement*g.axialDisplacement + g.deflection*g.deflection)
+			dispFE += w * (f.AxialDisplacement*f.AxialDisplacement + f.Deflection*f.Deflection)
+			energyErr += w * (dn*dn/ea + dm*dm/ei)
+			energy += w * (g.axialForce*g.axialForce/ea + g.bendingMoment*g.bendingMoment/ei)
+			energyTerms += w * (g.axialTerms*g.axialTerms/ea + g.bendingTerms*g.bendingTerms/ei)
 		}
 	}
 	out.MaxStressRelative = relativeError(out.MaxStress, maxStress, stressTerms, stressTermsFE)
 	out.RelativeL2 = relativeError(math.Sqrt(dispErr), math.Sqrt(disp), math.Sqrt(disp), math.Sqrt(dispFE))
 	out.RelativeEnergy = relativeError(math.Sqrt(energyErr), math.Sqrt(energy), math.Sqrt(energyTerms), math.Sqrt(energyTermsFE))
 	return out
+}
+
+// stretchPolynomials are the exact fields Compare reads on one stretch, as
+// polynomials in t = (x − start)/length with differentiation, rigidities and
+// powers of the length already applied, so a point costs one pass of
+// Horner's rule over all of them.
+type stretchPolynomials struct {
+	start, length, inverseLength float64 // m, m, 1/m
+	tolerance                    float64 // m: closer to an end than this is at the end
+	axialOffset                  float64 // −EA·αΔT, N
+	inverseArea, fibreOverSecond float64 // 1/A (1/m²), c/I (1/m³)
+	// coeff[k][q] multiplies t^k in quantity q (see the exact* indices).
+	coeff [6][exactQuantities]float64
+}
+
+// Indices of the quantities in stretchPolynomials.coeff: u and w (m); N
+// without its thermal offset and M; and the sizes Σ|term| of the terms that
+// make N (offset apart) and M, as in Exact.actionMagnitudes.
+const (
+	exactAxial = iota
+	exactDeflection
+	exactAxialForce
+	exactMoment
+	exactAxialTerms
+	exactMomentTerms
+	exactQuantities
+)
+
+func newStretchPolynomials(s *exactStretch, tolerance float64) stretchPolynomials {
+	h := s.length
+	p := stretchPolynomials{start: s.start, length: h, inverseLength: 1 / h, tolerance: tolerance,
+		axialOffset: s.bar.offset, inverseArea: 1 / s.area, fibreOverSecond: s.fibre / s.secondMoment}
+	put := func(q int, c []float64, d int, scale float64) {
+		for k := d; k < len(c); k++ {
+			v := scale * c[k] * fallingFactorial(k, d)
+			p.coeff[k-d][q] = v
+			if q == exactAxialForce || q == exactMoment {
+				p.coeff[k-d][q+exactAxialTerms-exactAxialForce] = math.Abs(v)
+			}
+		}
+	}
+	put(exactAxial, s.bar.coeff, 0, 1)
+	put(exactDeflection, s.beam.coeff, 0, 1)
+	put(exactAxialForce, s.bar.coeff, 1, s.bar.stiffness/h)
+	put(exactMoment, s.beam.coeff, 2, s.beam.stiffness/(h*h))
+	return p
+}
+
+// exactValues are the exact fields Compare needs at one point, with the
+// sizes of the terms that make N and M (see Exact.actionMagnitudes).
+type exactValues struct {
+	axialDisplacement, deflection float64 // m
+	axialForce, bendingMoment     float64 // N, N·m
+	stress                        float64 // combined, Pa
+	axialTerms, bendingTerms      float64 // N, N·m
+}
+
+// at evaluates the stretch at x, which must lie on it; within the merge
+// tolerance of an end, x counts as that end.
+func (p *stretchPolynomials) at(x float64) exactValues {
+	t := min(max((x-p.start)*p.inverseLength, 0), 1)
+	if x-p.start <= p.tolerance {
+		t = 0
+	} else if p.start+p.length-x <= p.tolerance {
+		t = 1
+	}
+	var y [exactQuantities]float64
+	for k := len(p.coeff) - 1; k >= 0; k-- {
+		c := &p.coeff[k]
+		for q := range y {
+			y[q] = y[q]*t + c[q]
+		}
+	}
+	v := exactValues{
+		axialDisplacement: y[exactAxial],
+		deflection:        y[exactDeflection],
+		axialForce:        y[exactAxialForce] + p.axialOffset,
+		bendingMoment:     y[exactMoment],
+		axialTerms:        y[exactAxialTerms] + math.Abs(p.axialOffset),
+		bendingTerms:      y[exactMomentTerms],
+	}
+	v.stress = extremeFibreStress(v.axialForce*p.inverseArea, v.bendingMoment*p.fibreOverSecond)
+	return v
 }
 
 // relativeError is err/exact, unless exact is negligible against
