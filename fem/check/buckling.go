@@ -138,15 +138,8 @@ func columns(m *fem.Model) []column {
 // Euler load.
 func bucklingChecks(p probe, o Options) []Result {
 	var out []Result
-	for _, c := range columns(p.model) {
-		compression, where := 0.0, c.a
-		for _, pt := range p.points(c.a, c.b) {
-			for _, src := range p.sources {
-				if n := -src.At(pt.x, pt.side).AxialForce; n > compression {
-					compression, where = n, pt.x
-				}
-			}
-		}
+	for k, c := range p.columns {
+		compression, where := p.compression[k].value, p.compression[k].x
 		if compression <= 0 {
 			continue
 		}

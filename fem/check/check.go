@@ -17,6 +17,7 @@ package check
 
 import (
 	"math"
+	"sort"
 
 	"stave/fem"
 	"stave/fem/units"
@@ -121,7 +122,7 @@ func Run(m *fem.Model, s *fem.Solution, e *fem.Exact, opts Options) []Result {
 		return []Result{withCaution(Result{Name: "Checks", Status: Info,
 			Message: "There is no solution to check yet: fix the model until it solves, then the checks run."})}
 	}
-	p := newProbe(m, s, e)
+	p := read(m, s, e)
 	var out []Result
 	out = append(out, stressChecks(p, opts)...)
 	out = append(out, deflectionChecks(p, opts)...)
@@ -140,61 +141,154 @@ func withCaution(r Result) Result {
 	return r
 }
 
-// probe reads the fields of the solutions at sample points.
-type probe struct {
-	model    *fem.Model
-	solution *fem.Solution
-	exact    *fem.Exact  // nil when not available
-	sources  []fem.Field // the solution, then the exact solution if any
-}
-
 // perElement is how many intervals each element is sampled in; eight
 // resolves the quintic exact deflection well inside the 1 % the checks work to.
 const perElement = 8
 
-func newProbe(m *fem.Model, s *fem.Solution, e *fem.Exact) probe {
-	p := probe{model: m, solution: s, exact: e, sources: []fem.Field{s}}
+// peak is the value a check keeps, and where it occurs.
+type peak struct{ value, x float64 }
+
+// probe holds what the checks read from the solutions, gathered in one walk
+// over the sample points: perElement+1 points per element, both ends
+// included and each seen from inside its element, where both solutions are
+// read once and every check that covers the point takes its value.
+type probe struct {
+	model    *fem.Model
+	solution *fem.Solution
+	exact    *fem.Exact // nil when not available
+	parts    []stretch  // spans and overhangs, for deflection
+	columns  []column   // parts checked for buckling
+	// stress holds per segment the combined stress of largest magnitude
+	// (signed), from whichever solution is larger there.
+	stress []peak
+	// deflection holds per part the largest |w − chord| (see chord).
+	deflection []peak
+	// compression holds per column the largest −N.
+	compression []peak
+	// stressError is the largest |σ_h − σ| against the exact solution.
+	stressError peak
+	// norms are the error norms against the exact solution.
+	norms fem.ErrorNorms
+}
+
+// read walks the sample points of s (and e) once for every check. The
+// error norms are independent of the walk and are measured beside it, so on
+// two cores they cost no extra time.
+func read(m *fem.Model, s *fem.Solution, e *fem.Exact) (p probe) {
+	p = probe{model: m, solution: s, exact: e, parts: stretches(m), columns: columns(m)}
 	if e != nil {
-		p.sources = append(p.sources, e)
+		norms := make(chan fem.ErrorNorms, 1)
+		go func() { norms <- fem.Compare(s, e) }()
+		defer func() { p.norms = <-norms }()
 	}
-	return p
-}
-
-// point is a sample position seen from inside one element.
-type point struct {
-	x       float64
-	side    fem.Side
-	segment int
-}
-
-// points lists the sample points of the elements that overlap [a, b].
-func (p probe) points(a, b float64) []point {
-	var out []point
-	for _, el := range p.solution.Mesh.Elements {
-		if el.End <= a || el.Start >= b {
-			continue
+	els := s.Mesh.Elements
+	p.stress = make([]peak, len(m.Segments))
+	for i, seg := range m.Segments {
+		p.stress[i].x = seg.Start
+	}
+	p.deflection = make([]peak, len(p.parts))
+	p.compression = make([]peak, len(p.columns))
+	for k, c := range p.columns {
+		p.compression[k].x = c.a
+	}
+	p.stressError.value = -1
+	partCover, columnCover := newCover(els, len(p.parts)), newCover(els, len(p.columns))
+	// The support deflections of each part, per solution, for its chord.
+	chords := make([][2]chordLine, len(p.parts))
+	for k, st := range p.parts {
+		partCover.set(k, st.a, st.b)
+		chords[k][0] = newChord(s, st)
+		if e != nil {
+			chords[k][1] = newChord(e, st)
 		}
+	}
+	for k, c := range p.columns {
+		columnCover.set(k, c.a, c.b)
+	}
+	var parts, cols []int
+	for i, el := range els {
+		parts, cols = partCover.at(i, parts[:0]), columnCover.at(i, cols[:0])
+		stress := &p.stress[el.Segment]
 		for j := 0; j <= perElement; j++ {
 			x, side := el.Start+(el.End-el.Start)*float64(j)/perElement, fem.Right
 			if j == perElement {
 				x, side = el.End, fem.Left
 			}
-			out = append(out, point{x, side, el.Segment})
+			fe := s.At(x, side)
+			var ex fem.Fields
+			if e != nil {
+				ex = e.At(x, side)
+			}
+			// The solutions in order, finite element first: a later one
+			// replaces an earlier value only when strictly larger in magnitude.
+			larger := func(fromFE, fromExact float64) float64 {
+				best := 0.0
+				if math.Abs(fromFE) > math.Abs(best) {
+					best = fromFE
+				}
+				if e != nil && math.Abs(fromExact) > math.Abs(best) {
+					best = fromExact
+				}
+				return best
+			}
+			if v := larger(fe.CombinedStress, ex.CombinedStress); math.Abs(v) > math.Abs(stress.value) {
+				*stress = peak{v, x}
+			}
+			for _, k := range parts {
+				c := &chords[k]
+				v := larger(fe.Deflection-c[0].at(x), ex.Deflection-c[1].at(x))
+				if math.Abs(v) > p.deflection[k].value {
+					p.deflection[k] = peak{math.Abs(v), x}
+				}
+			}
+			for _, k := range cols {
+				if n := -fe.AxialForce; n > p.compression[k].value {
+					p.compression[k] = peak{n, x}
+				}
+				if n := -ex.AxialForce; e != nil && n > p.compression[k].value {
+					p.compression[k] = peak{n, x}
+				}
+			}
+			if d := math.Abs(fe.CombinedStress - ex.CombinedStress); e != nil && d > p.stressError.value {
+				p.stressError = peak{d, x}
+			}
 		}
 	}
-	return out
+	return p
 }
 
-// largest returns the value of f, over all sources, with the largest
-// magnitude at pt; f gets the source too, to read it elsewhere.
-func (p probe) largest(pt point, f func(src fem.Field, at fem.Fields) float64) float64 {
-	best := 0.0
-	for _, src := range p.sources {
-		if v := f(src, src.At(pt.x, pt.side)); math.Abs(v) > math.Abs(best) {
-			best = v
+// cover finds, element by element, which of a list of parts of the member
+// (sorted along it, as stretches and columns are) an element overlaps. Part
+// k covers the elements first[k] ≤ i < end[k], those with End > a and
+// Start < b; both bounds grow with k, so a sliding window finds them.
+type cover struct {
+	els        []fem.Element
+	first, end []int
+	next       int // parts before next end before the current element
+}
+
+func newCover(els []fem.Element, parts int) cover {
+	return cover{els: els, first: make([]int, parts), end: make([]int, parts)}
+}
+
+// set records the elements part k = [a, b] overlaps.
+func (c *cover) set(k int, a, b float64) {
+	c.first[k] = sort.Search(len(c.els), func(i int) bool { return c.els[i].End > a })
+	c.end[k] = sort.Search(len(c.els), func(i int) bool { return c.els[i].Start >= b })
+}
+
+// at appends to dst the parts covering element i; i must not decrease
+// between calls.
+func (c *cover) at(i int, dst []int) []int {
+	for c.next < len(c.end) && c.end[c.next] <= i {
+		c.next++
+	}
+	for k := c.next; k < len(c.first) && c.first[k] <= i; k++ {
+		if i < c.end[k] {
+			dst = append(dst, k)
 		}
 	}
-	return best
+	return dst
 }
 
 func (p probe) fromWhat() string {

@@ -15,16 +15,8 @@ func stressChecks(p probe, o Options) []Result {
 	var out []Result
 	for i, seg := range p.model.Segments {
 		r := Result{Name: fmt.Sprintf("Stress, segment %d", i+1), Span: [2]float64{seg.Start, seg.End}}
-		worst, where := 0.0, seg.Start
-		for _, pt := range p.points(seg.Start, seg.End) {
-			if pt.segment != i {
-				continue
-			}
-			if v := p.largest(pt, func(_ fem.Field, f fem.Fields) float64 { return f.CombinedStress }); math.Abs(v) > math.Abs(worst) {
-				worst, where = v, pt.x
-			}
-		}
-		r.X, r.Value = where, math.Abs(worst)
+		where := p.stress[i].x
+		r.X, r.Value = where, math.Abs(p.stress[i].value)
 		stress := o.Units.Format(units.Stress, r.Value)
 		at := o.Units.Format(units.Position, where)
 		allowable := seg.Material.Allowable
@@ -110,14 +102,13 @@ func stretches(m *fem.Model) []stretch {
 // deflectionChecks measures, per stretch, the deflection relative to the
 // supports (so settlements do not count) against span/n.
 func deflectionChecks(p probe, o Options) []Result {
-	parts := stretches(p.model)
-	if len(parts) == 0 {
+	if len(p.parts) == 0 {
 		return []Result{{Name: "Deflection", Status: Info,
 			Message: "No support restrains deflection rigidly, so there is no span to measure deflection against; deflection is not checked."}}
 	}
 	var out []Result
-	for _, st := range parts {
-		r := Result{Span: [2]float64{st.a, st.b}}
+	for k, st := range p.parts {
+		r := Result{Span: [2]float64{st.a, st.b}, Value: p.deflection[k].value, X: p.deflection[k].x}
 		length := st.b - st.a
 		n := o.SpanRatio
 		kind := "span"
@@ -127,12 +118,6 @@ func deflectionChecks(p probe, o Options) []Result {
 		}
 		r.Name = fmt.Sprintf("Deflection, %s %s to %s", kind, o.Units.Format(units.Position, st.a), o.Units.Format(units.Position, st.b))
 		r.Limit = length / n
-		for _, pt := range p.points(st.a, st.b) {
-			v := p.largest(pt, func(src fem.Field, f fem.Fields) float64 { return f.Deflection - chord(src, st, pt.x) })
-			if math.Abs(v) > r.Value {
-				r.Value, r.X = math.Abs(v), pt.x
-			}
-		}
 		r.Status = Pass
 		if r.Value > r.Limit {
 			r.Status = Fail
@@ -151,17 +136,26 @@ func deflectionChecks(p probe, o Options) []Result {
 	return out
 }
 
-// chord is the deflection of the supports at x in solution src: the
-// straight line through both supports of a span, or the support's own
+// chordLine is the deflection of the supports of a part in one solution:
+// the straight line through both supports of a span, or the support's own
 // deflection for an overhang.
-func chord(src fem.Field, st stretch, x float64) float64 {
-	wa := src.At(st.a, fem.Right).Deflection
-	wb := src.At(st.b, fem.Left).Deflection
+type chordLine struct {
+	part   stretch
+	wa, wb float64 // deflection at part.a and part.b, m
+}
+
+func newChord(src fem.Field, st stretch) chordLine {
+	return chordLine{part: st, wa: src.At(st.a, fem.Right).Deflection, wb: src.At(st.b, fem.Left).Deflection}
+}
+
+// at is the chord's deflection at x.
+func (c chordLine) at(x float64) float64 {
+	st := c.part
 	switch {
 	case !st.support[0]:
-		return wb
+		return c.wb
 	case !st.support[1]:
-		return wa
+		return c.wa
 	}
-	return wa + (wb-wa)*(x-st.a)/(st.b-st.a)
+	return c.wa + (c.wb-c.wa)*(x-st.a)/(st.b-st.a)
 }
