@@ -22,13 +22,13 @@ type diagram struct {
 }
 
 var diagramsList = []diagram{
-	{quantity{"Axial force", "N", units.Force, func(f fem.Fields) float64 { return f.AxialForce }},
+	{quantity{"Axial force", "N", units.Force, func(f *fem.Fields) float64 { return f.AxialForce }, constantInLinearBar},
 		rgb(0x2e, 0x7d, 0x32), false, "tension + drawn above", func(l Layers) bool { return l.AxialForce }},
-	{quantity{"Shear force", "V", units.Force, func(f fem.Fields) float64 { return f.ShearForce }},
+	{quantity{"Shear force", "V", units.Force, func(f *fem.Fields) float64 { return f.ShearForce }, constant},
 		rgb(0x15, 0x65, 0xc0), false, "V = dM/dx, + drawn above", func(l Layers) bool { return l.ShearForce }},
-	{quantity{"Bending moment", "M", units.Moment, func(f fem.Fields) float64 { return f.BendingMoment }},
+	{quantity{"Bending moment", "M", units.Moment, func(f *fem.Fields) float64 { return f.BendingMoment }, sloped},
 		rgb(0x7b, 0x1f, 0xa2), true, "sagging + drawn below (tension side)", func(l Layers) bool { return l.BendingMoment }},
-	{quantity{"Combined stress", "", units.Stress, func(f fem.Fields) float64 { return f.CombinedStress }},
+	{quantity{"Combined stress", "", units.Stress, func(f *fem.Fields) float64 { return f.CombinedStress }, extremeFibre},
 		rgb(0xa8, 0x4a, 0x00), false, "tension + drawn above", func(l Layers) bool { return l.Stress }},
 }
 

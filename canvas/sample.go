@@ -13,10 +13,34 @@ type quantity struct {
 	name   string
 	symbol string
 	unit   units.Quantity
-	get    func(fem.Fields) float64
+	get    func(*fem.Fields) float64
+	// within says how the quantity varies inside an element.
+	within variation
 }
 
-var deflectionQuantity = quantity{"deflection", "w", units.Deflection, func(f fem.Fields) float64 { return f.Deflection }}
+// variation is how a quantity varies inside an element, which decides what
+// must be read to know its value at the element's end. Hermite beam elements
+// have a cubic w, a linear M and a constant V; linear bar elements a constant
+// N (Hughes, The Finite Element Method, ch. 1, from memory).
+type variation int
+
+const (
+	// nodal quantities end on the node's own displacement.
+	nodal variation = iota
+	// constant quantities end on their value at the start.
+	constant
+	// sloped quantities end on the value at the start plus the shear force
+	// times the length: the bending moment, since V = dM/dx.
+	sloped
+	// constantInLinearBar quantities are constant in linear bars and must be
+	// read at the end of quadratic ones: the axial force.
+	constantInLinearBar
+	// extremeFibre quantities follow from N and M at the end: the combined
+	// stress N/A ± M·c/I of larger magnitude (fem.Fields).
+	extremeFibre
+)
+
+var deflectionQuantity = quantity{"deflection", "w", units.Deflection, func(f *fem.Fields) float64 { return f.Deflection }, nodal}
 
 // extreme is a value and where it occurs.
 type extreme struct{ x, value float64 }
@@ -38,37 +62,90 @@ type curve struct {
 	n      int
 }
 
-func newCurve(v View) *curve {
+// reset empties c for view v, keeping its memory when it is large enough.
+func (c *curve) reset(v View) {
 	// One spare column each side keeps the line continuous off the edges.
-	return &curve{v: v, cols: make([]column, int(math.Ceil(float64(v.Width)))+2),
-		lo: extreme{value: math.Inf(1)}, hi: extreme{value: math.Inf(-1)}}
+	n := int(math.Ceil(float64(v.Width))) + 2
+	if cap(c.cols) < n {
+		c.cols = make([]column, n)
+	}
+	c.cols = c.cols[:n]
+	clear(c.cols)
+	*c = curve{v: v, cols: c.cols, lo: extreme{value: math.Inf(1)}, hi: extreme{value: math.Inf(-1)}}
 }
 
-func (c *curve) add(x, value float64) {
+func newCurve(v View) *curve {
+	c := &curve{}
+	c.reset(v)
+	return c
+}
+
+// column is the index of the column holding model x.
+func (c *curve) column(x float64) int {
+	k := int(math.Floor(float64(c.v.ToScreenX(x)))) + 1
+	return max(0, min(len(c.cols)-1, k))
+}
+
+func (c *curve) add(x, value float64) { c.addTo(c.column(x), x, value) }
+
+// addTo adds a sample to column k, which must be c.column(x). Samples come in
+// increasing x; finish sums the columns up once all are in.
+func (c *curve) addTo(k int, x, value float64) {
 	if math.IsNaN(value) {
 		return
 	}
-	k := int(math.Floor(float64(c.v.ToScreenX(x)))) + 1
-	k = max(0, min(len(c.cols)-1, k))
 	col := &c.cols[k]
 	e := extreme{x, value}
-	if col.n == 0 {
+	switch {
+	case col.n == 0:
 		*col = column{first: e, lo: e, hi: e}
-	}
-	if value < col.lo.value {
+	case value < col.lo.value:
 		col.lo, col.loAt = e, col.n
-	}
-	if value > col.hi.value {
+	case value > col.hi.value:
 		col.hi, col.hiAt = e, col.n
 	}
 	col.last = e
 	col.n++
-	c.n++
-	if value < c.lo.value {
-		c.lo = e
+}
+
+// finish sets the count and the extremes over all samples from the columns:
+// the first lowest and the first highest met, as the columns keep them.
+func (c *curve) finish() {
+	c.n, c.lo, c.hi = 0, extreme{value: math.Inf(1)}, extreme{value: math.Inf(-1)}
+	for k := range c.cols {
+		col := &c.cols[k]
+		if col.n == 0 {
+			continue
+		}
+		c.n += col.n
+		if col.lo.value < c.lo.value {
+			c.lo = col.lo
+		}
+		if col.hi.value > c.hi.value {
+			c.hi = col.hi
+		}
 	}
-	if value > c.hi.value {
-		c.hi = e
+}
+
+// merge appends the samples of o, which all follow those of c, column by column.
+func (c *curve) merge(o *curve) {
+	for k := range o.cols {
+		col, next := &c.cols[k], &o.cols[k]
+		switch {
+		case next.n == 0:
+			continue
+		case col.n == 0:
+			*col = *next
+			continue
+		}
+		if next.lo.value < col.lo.value {
+			col.lo, col.loAt = next.lo, col.n+next.loAt
+		}
+		if next.hi.value > col.hi.value {
+			col.hi, col.hiAt = next.hi, col.n+next.hiAt
+		}
+		col.last = next.last
+		col.n += next.n
 	}
 }
 
@@ -116,33 +193,110 @@ func (c *curve) points(toY func(float64) float32) []Point {
 const maxSamplesPerElement = 48
 
 // sampleCurves reads the finite element solution for each quantity over the
-// visible part of the member. Elements wider than a few pixels are sampled
-// inside; narrower ones give only their end values, so the work is about two
-// evaluations per visible element and the result is bounded by the width.
-func sampleCurves(s *fem.Solution, v View, qs []quantity) []*curve {
-	cs := make([]*curve, len(qs))
-	for i := range cs {
-		cs[i] = newCurve(v)
-	}
-	add := func(x float64, side fem.Side) {
-		f := s.At(x, side)
-		for i, q := range qs {
-			cs[i].add(x, q.get(f))
-		}
+// visible part of the member into cs, one curve per quantity. Elements wider
+// than a few pixels are sampled inside; narrower ones give only their end
+// values, so the work is about one evaluation per visible element (the end
+// follows from the start, see variation) and the result is bounded by the
+// width. Many visible elements are read in two halves at once, one per core.
+func sampleCurves(s *fem.Solution, v View, qs []quantity, cs []*curve) {
+	for _, c := range cs {
+		c.reset(v)
 	}
 	lo, hi := v.ToModelX(-1), v.ToModelX(v.Width+1)
 	els := s.Mesh.Elements
-	i := sort.Search(len(els), func(k int) bool { return els[k].End >= lo })
-	for ; i < len(els) && els[i].Start <= hi; i++ {
-		e := els[i]
-		inner := int(min(maxSamplesPerElement, (e.End-e.Start)*v.Scale/3))
-		add(e.Start, fem.Right)
-		for j := 1; j <= inner; j++ {
-			add(e.Start+(e.End-e.Start)*float64(j)/float64(inner+1), fem.Right)
+	first := sort.Search(len(els), func(k int) bool { return els[k].End >= lo })
+	end := first + sort.Search(len(els)-first, func(k int) bool { return els[first+k].Start > hi })
+	if end-first < parallelElements {
+		sampleElements(s, v, qs, cs, first, end)
+	} else {
+		mid := (first + end) / 2
+		second := make([]*curve, len(cs))
+		for i := range second {
+			second[i] = newCurve(v)
 		}
-		add(e.End, fem.Left)
+		done := make(chan struct{})
+		go func() {
+			sampleElements(s, v, qs, second, mid, end)
+			close(done)
+		}()
+		sampleElements(s, v, qs, cs, first, mid)
+		<-done
+		for i, c := range cs {
+			c.merge(second[i])
+		}
 	}
-	return cs
+	for _, c := range cs {
+		c.finish()
+	}
+}
+
+// parallelElements is the number of visible elements from which sampleCurves
+// reads two halves at once: below it a second goroutine costs more than it saves.
+const parallelElements = 100_000
+
+// sampleElements adds the samples of elements from ≤ i < to to cs.
+func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, to int) {
+	add := func(x float64, f *fem.Fields) {
+		k := cs[0].column(x)
+		for i, q := range qs {
+			cs[i].addTo(k, x, q.get(f))
+		}
+	}
+	// What a narrow element's ends need: an evaluation at the start unless
+	// every quantity is nodal, and one at the end if the axial force varies
+	// inside the elements (quadratic bars) and is drawn or makes the stress.
+	readStart, readEnd := false, false
+	for _, q := range qs {
+		readStart = readStart || q.within != nodal
+		readEnd = readEnd || (q.within == constantInLinearBar || q.within == extremeFibre) &&
+			s.Model.Mesh.BarOrder == fem.QuadraticBar
+	}
+	// The fields of the samples, kept in one place: passed by pointer to the
+	// quantities' readers they would otherwise move to the heap one by one.
+	start, end := new(fem.Fields), new(fem.Fields)
+	for _, e := range s.Mesh.Elements[from:to] {
+		h := e.End - e.Start
+		inner := int(min(maxSamplesPerElement, h*v.Scale/3))
+		if inner > 0 {
+			for j := 0; j <= inner+1; j++ {
+				x, side := e.Start+h*float64(j)/float64(inner+1), fem.Right
+				if j == inner+1 {
+					x, side = e.End, fem.Left
+				}
+				*start = s.At(x, side)
+				add(x, start)
+			}
+			continue
+		}
+		if readStart {
+			*start = s.At(e.Start, fem.Right)
+		} else {
+			*start = fem.Fields{Deflection: s.Displacement[e.First][fem.Transverse]}
+		}
+		if readEnd {
+			*end = s.At(e.End, fem.Left)
+		} else {
+			*end = fem.Fields{
+				Deflection:    s.Displacement[e.First+1][fem.Transverse],
+				AxialForce:    start.AxialForce,
+				ShearForce:    start.ShearForce,
+				BendingMoment: start.BendingMoment + start.ShearForce*h,
+			}
+			end.CombinedStress = combinedStress(end.AxialForce, end.BendingMoment, s.Model.Segments[e.Segment].Section)
+		}
+		add(e.Start, start)
+		add(e.End, end)
+	}
+}
+
+// combinedStress is N/A + M·c/I or N/A − M·c/I, whichever is larger in
+// magnitude, computed as package fem does for Fields.CombinedStress.
+func combinedStress(axialForce, moment float64, sec fem.Section) float64 {
+	axial, bending := axialForce/sec.Area, moment*sec.FibreDistance/sec.SecondMoment
+	if bottom, top := axial+bending, axial-bending; math.Abs(top) > math.Abs(bottom) {
+		return top
+	}
+	return axial + bending
 }
 
 // exactCurves reads the exact solution once per pixel column and on both
@@ -155,6 +309,7 @@ func exactCurves(e *fem.Exact, s *fem.Solution, m *fem.Model, v View, qs []quant
 	}
 	gaps = make([]extreme, len(qs))
 	l := m.Length()
+	f, g := new(fem.Fields), new(fem.Fields) // see sampleElements
 	add := func(x float64, side fem.Side) {
 		// Beyond the ends there is no other side to read.
 		if x <= 0 {
@@ -162,10 +317,9 @@ func exactCurves(e *fem.Exact, s *fem.Solution, m *fem.Model, v View, qs []quant
 		} else if x >= l {
 			side = fem.Left
 		}
-		f := e.At(x, side)
-		var g fem.Fields
+		*f = e.At(x, side)
 		if s != nil {
-			g = s.At(x, side)
+			*g = s.At(x, side)
 		}
 		for i, q := range qs {
 			ev := q.get(f)
@@ -190,13 +344,17 @@ func exactCurves(e *fem.Exact, s *fem.Solution, m *fem.Model, v View, qs []quant
 		}
 		add(x, fem.Right)
 	}
+	for _, c := range cs {
+		c.finish()
+	}
 	return cs, gaps
 }
 
 // Cache keeps the sampled finite element curves between builds of the same
 // solution in the same view, so a hover or a selection change redraws without
-// reading a large solution again. The zero value is ready to use; give each
-// drawing area its own Cache and do not share one between goroutines.
+// reading a large solution again; after any other change it lends their
+// memory to the new curves. The zero value is ready to use; give each drawing
+// area its own Cache and do not share one between goroutines.
 type Cache struct {
 	solution  *fem.Solution
 	x0, scale float64
@@ -212,12 +370,16 @@ func (c *Cache) curves(s *fem.Solution, v View, qs []quantity) []*curve {
 	for _, q := range qs {
 		names += q.name + ";"
 	}
-	if c != nil && c.solution == s && c.x0 == v.X0 && c.scale == v.Scale && c.width == v.Width && c.names == names {
-		return c.sampled
+	if c == nil {
+		c = &Cache{}
+	} else if c.solution == s && c.x0 == v.X0 && c.scale == v.Scale && c.width == v.Width && c.names == names {
+		return c.sampled[:len(qs)]
 	}
-	cs := sampleCurves(s, v, qs)
-	if c != nil {
-		*c = Cache{solution: s, x0: v.X0, scale: v.Scale, width: v.Width, names: names, sampled: cs}
+	for len(c.sampled) < len(qs) {
+		c.sampled = append(c.sampled, &curve{})
 	}
+	cs := c.sampled[:len(qs)]
+	sampleCurves(s, v, qs, cs)
+	c.solution, c.x0, c.scale, c.width, c.names = s, v.X0, v.Scale, v.Width, names
 	return cs
 }

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"image/color"
 	"math"
+	"sort"
 	"strconv"
 
 	"stave/fem"
@@ -84,17 +85,17 @@ func (b *builder) segments(y float32) {
 	}
 }
 
-// nodeTicks marks the mesh nodes, at most one tick per pixel column.
+// nodeTicks marks the mesh nodes, at most one tick per pixel column: after
+// each tick the next is the first node at least two pixels on, found by
+// bisection, so the work grows with the width and not with the mesh.
 func (b *builder) nodeTicks(y, top float32) {
 	mesh := b.in.Solution.Mesh
-	last := float32(math.Inf(-1))
-	for _, x := range visibleNodes(mesh.X, b.v) {
-		px := b.sx(x)
-		if px-last < 2 {
-			continue
-		}
-		last = px
+	xs := visibleNodes(mesh.X, b.v)
+	for i := 0; i < len(xs); {
+		px := b.sx(xs[i])
 		b.line(faintColour, 1, Point{px, y - 7}, Point{px, y - 3})
+		rest := xs[i+1:]
+		i += 1 + sort.Search(len(rest), func(k int) bool { return b.sx(rest[k])-px >= 2 })
 	}
 	n := len(mesh.Elements)
 	b.text(fmt.Sprintf("mesh: %d elements", n), 8, top+38, smallSize, 0, 0, faintColour, false)

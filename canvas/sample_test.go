@@ -1,0 +1,106 @@
+package canvas
+
+import (
+	"fmt"
+	"math"
+	"testing"
+
+	"stave/fem"
+)
+
+// sampledByAt is how the curves were read before sampleCurves took a narrow
+// element's end from its start: every sample through Solution.At, the end of
+// each element included, one after the other.
+func sampledByAt(s *fem.Solution, v View, qs []quantity) []*curve {
+	cs := make([]*curve, len(qs))
+	for i := range cs {
+		cs[i] = newCurve(v)
+	}
+	lo, hi := v.ToModelX(-1), v.ToModelX(v.Width+1)
+	for _, e := range s.Mesh.Elements {
+		if e.End < lo || e.Start > hi {
+			continue
+		}
+		inner := int(min(maxSamplesPerElement, (e.End-e.Start)*v.Scale/3))
+		for j := 0; j <= inner+1; j++ {
+			x, side := e.Start+(e.End-e.Start)*float64(j)/float64(inner+1), fem.Right
+			if j == inner+1 {
+				x, side = e.End, fem.Left
+			}
+			f := s.At(x, side)
+			for i, q := range qs {
+				cs[i].add(x, q.get(&f))
+			}
+		}
+	}
+	for _, c := range cs {
+		c.finish()
+	}
+	return cs
+}
+
+// The curves sampleCurves draws must be those of reading every element end
+// through At: the same samples in every pixel column, first and last at the
+// same places, and values equal to round-off (a narrow element's end moment is
+// its start moment plus V·h, its end stress is recomputed from N and M).
+// Covers wide and narrow elements, both bar orders, a zoomed view and enough
+// elements for the two-goroutine read.
+func TestSampleCurvesMatchReadingEveryEnd(t *testing.T) {
+	var qs []quantity
+	for _, d := range diagramsList {
+		qs = append(qs, d.quantity)
+	}
+	qs = append(qs, deflectionQuantity)
+	for _, c := range []struct {
+		elements int
+		order    fem.ElementOrder
+		zoom     float32
+	}{
+		{12, fem.LinearBar, 1},
+		{3000, fem.LinearBar, 1},
+		{3000, fem.QuadraticBar, 1},
+		{3000, fem.LinearBar, 40},
+		{2 * parallelElements, fem.LinearBar, 1},
+		{2 * parallelElements, fem.QuadraticBar, 1},
+	} {
+		t.Run(fmt.Sprintf("%d elements, bar order %d, zoom %g", c.elements, c.order, c.zoom), func(t *testing.T) {
+			m := demoModel(c.elements)
+			m.Mesh.BarOrder = c.order
+			m.PointLoads[1].Axial = 60e3 // a varying axial force in the second segment
+			m.DistributedLoad = append(m.DistributedLoad, fem.DistributedLoad{Direction: fem.Axial,
+				Points: []fem.LoadPoint{{X: 1, Intensity: 5e3}, {X: 5, Intensity: -2e3}}})
+			s, err := fem.Solve(m)
+			if err != nil {
+				t.Fatal(err)
+			}
+			v := NewView(1100, 800)
+			v.Fit(m)
+			v.Zoom(c.zoom, 500)
+			got := make([]*curve, len(qs))
+			for i := range got {
+				got[i] = &curve{}
+			}
+			sampleCurves(s, v, qs, got)
+			want := sampledByAt(s, v, qs)
+			for i, q := range qs {
+				g, w := got[i], want[i]
+				tol := 1e-9 * max(math.Abs(w.lo.value), math.Abs(w.hi.value))
+				near := func(a, b extreme) bool { return math.Abs(a.value-b.value) <= tol }
+				if g.n != w.n || !near(g.lo, w.lo) || !near(g.hi, w.hi) {
+					t.Errorf("%s: %d samples from %g to %g, want %d from %g to %g", q.name, g.n, g.lo.value, g.hi.value, w.n, w.lo.value, w.hi.value)
+					continue
+				}
+				bad := 0
+				for k := range w.cols {
+					a, b := g.cols[k], w.cols[k]
+					if a.n != b.n || a.first.x != b.first.x || a.last.x != b.last.x ||
+						!near(a.first, b.first) || !near(a.last, b.last) || !near(a.lo, b.lo) || !near(a.hi, b.hi) {
+						if bad++; bad <= 3 {
+							t.Errorf("%s, column %d: got %+v, want %+v", q.name, k, a, b)
+						}
+					}
+				}
+			}
+		})
+	}
+}
