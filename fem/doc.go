@@ -30,9 +30,10 @@
 //
 // # How the pieces fit
 //
-//	Model ─Validate→ BuildMesh (or MeshFromNodes) → elements → banded assembly
-//	      → BandLDL factorization → displacements → reactions, equilibrium,
-//	      strain energy → Solution.At / Solution.Sample (fields)
+//	Model ─Validate→ BuildMesh (or MeshFromNodes) → key-point system (SymBand,
+//	      BandLDL) → hierarchical refinement of every stretch → displacements
+//	      → reactions (statics), equilibrium, strain energy
+//	      → Solution.At / Solution.Sample (fields)
 //
 // Validate reports every problem of a model at once (*ValidationError).
 // BuildMesh places nodes at every key point (ends, segment breaks, supports,
@@ -40,12 +41,23 @@
 // uniformly; MeshFromNodes takes caller-chosen nodes, for adaptive
 // refinement. Bars use 2-node linear or 3-node quadratic elements, beams
 // 2-node Hermite cubics; consistent nodal loads are integrated exactly by
-// Gauss–Legendre quadrature. The bar and the beam are assembled in banded
-// symmetric storage (SymBand) and solved separately by BandLDL, whose cost is
-// linear in the number of elements. Before factorizing, the supports are
-// checked for rigid-body motions (*MechanismError); after factorizing, the
-// condition number is estimated in linear time and a warning is attached to
-// the Solution when results may be unreliable.
+// Gauss–Legendre quadrature.
+//
+// The finite element answer is the Galerkin solution on the whole mesh, but
+// it is not found by factorizing the assembled fine-mesh stiffness: that
+// matrix has a condition number growing like n⁴ for beams, and round-off
+// would ruin a 10,000-element beam. Instead the mesh is written in a
+// hierarchical basis (hierarchy.go). Within a stretch between key points EA
+// and EI are constant and the loads are linear, and the functions added when
+// an interval is split are energy-orthogonal to every coarser function, so
+// the system falls apart into the small key-point system — assembled in
+// banded symmetric storage (SymBand) and factorized by BandLDL — and one 1×1
+// (bar) or 2×2 (beam) block per inner node. The cost is linear in the number
+// of elements and round-off does not grow with it. Before factorizing, the
+// supports are checked for rigid-body motions (*MechanismError); the
+// condition number of the key-point systems is estimated in linear time, and
+// Solution.Condition bounds the growth of round-off (relative error about
+// Condition·ε), with a warning attached when results may be unreliable.
 //
 // Results are an aid for checking: a qualified engineer must review them, and
 // local codes and licensed practice govern any design decision.

@@ -120,7 +120,39 @@ func SolveExact(m *Model) (*Exact, error) {
 			return nil, err
 		}
 	}
+	if !e.finite() {
+		return nil, errNotFinite
+	}
 	return e, nil
+}
+
+// finite reports whether the reactions and the fields at the ends and middle
+// of every stretch are finite numbers: validated but extreme inputs (a
+// moment of 1e308 N·m, I of 5e-324 m⁴) can overflow.
+func (e *Exact) finite() bool {
+	for _, r := range e.reactions {
+		for _, f := range r.Force {
+			if !isFinite(f) {
+				return false
+			}
+		}
+	}
+	for _, s := range e.stretches {
+		for _, t := range []float64{0, 0.5, 1} {
+			side := Right
+			if t == 1 {
+				side = Left
+			}
+			f := e.At(s.start+t*s.length, side)
+			for _, v := range []float64{f.AxialDisplacement, f.Deflection, f.Rotation, f.AxialForce,
+				f.ShearForce, f.BendingMoment, f.AxialStress, f.BendingStress, f.CombinedStress} {
+				if !isFinite(v) {
+					return false
+				}
+			}
+		}
+	}
+	return true
 }
 
 // newStretch sets up the stretch [a, b] with its section and the particular

@@ -160,10 +160,13 @@ func checkFinite(r *stretchRefiner, s *Solution) error {
 		}
 	}
 	if !isFinite(largest) || !isFinite(s.StrainEnergy) {
-		return errors.New("the results are too large for floating point (a displacement, force, moment or stress is infinite or undefined): check the units and magnitudes of the section, material, springs and loads")
+		return errNotFinite
 	}
 	return nil
 }
+
+// errNotFinite is the refusal of results that overflowed, by either solver.
+var errNotFinite = errors.New("the results are too large for floating point (a displacement, force, moment or stress is infinite or undefined): check the units and magnitudes of the section, material, springs and loads")
 
 // sectionTable gathers the section data of every segment.
 func sectionTable(m *Model) []sectionData {
