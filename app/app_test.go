@@ -348,3 +348,18 @@ func BenchmarkFinishStage(b *testing.B) {
 	}
 	reportMedian(b, times)
 }
+
+// TestUnitSwitchRoundsTheSnapStep: 0.1 m becomes 0.25 ft (3 in, the round
+// step nearest 0.3281 ft) and back to 0.1 m.
+func TestUnitSwitchRoundsTheSnapStep(t *testing.T) {
+	w, _ := newTestWindow(t, demoProject(t))
+	w.project.View.GridStep = 0.1
+	w.setUnits(units.USCustomary)
+	if got, want := w.project.View.GridStep, 0.25*0.3048; math.Abs(got-want) > 1e-12 { // 1 ft = 0.3048 m, NIST SP 811
+		t.Errorf("snap step in US units %g m, want %g m (0.25 ft)", got, want)
+	}
+	w.setUnits(units.SI)
+	if got := w.project.View.GridStep; math.Abs(got-0.1) > 1e-12 {
+		t.Errorf("snap step back in SI %g m, want 0.1 m", got)
+	}
+}

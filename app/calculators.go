@@ -66,6 +66,16 @@ func (w *Window) showSectionCalculator() {
 		return
 	}
 	segment, which := w.segmentPicker()
+	now := widget.NewLabel("")
+	showNow := func() {
+		if i := which(); i >= 0 && i < len(w.project.Model.Segments) {
+			sec, u := w.project.Model.Segments[i].Section, w.units
+			now.SetText(fmt.Sprintf("Segment now: A = %s    I = %s    c = %s", u.Format(units.Area, sec.Area),
+				u.Format(units.SecondMoment, sec.SecondMoment), u.Format(units.Dimension, sec.FibreDistance)))
+		}
+	}
+	showNow()
+	segment.OnChanged = func(string) { showNow() }
 	result := widget.NewLabel("")
 	result.Wrapping = fyne.TextWrapWord
 	form := container.New(layout.NewFormLayout())
@@ -128,6 +138,7 @@ func (w *Window) showSectionCalculator() {
 			return nil
 		}) == nil {
 			w.selectItem(canvas.Ref{Kind: canvas.Segment, Index: i})
+			showNow()
 		}
 	})
 	fill.Importance = widget.HighImportance
@@ -136,7 +147,7 @@ func (w *Window) showSectionCalculator() {
 	content := container.NewVBox(
 		container.NewBorder(nil, nil, widget.NewLabel("Segment"), nil, segment),
 		container.NewBorder(nil, nil, widget.NewLabel("Shape"), nil, choose),
-		form, widget.NewSeparator(), result, fill, note)
+		form, widget.NewSeparator(), result, now, fill, note)
 	d := dialog.NewCustom("Section calculator", "Close", content, w.win)
 	d.Resize(fyne.NewSize(560, 480))
 	d.Show()

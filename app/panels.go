@@ -122,13 +122,13 @@ func (w *Window) build() {
 	c.checkList.OnUnselected = func(widget.ListItemID) { w.selectCheck(checkRow{}) }
 
 	readoutAndChecks := container.NewVSplit(
-		container.NewBorder(heading("At the mouse"), nil, nil, nil, container.NewScroll(c.readout.grid)),
+		container.NewScroll(c.readout.grid), // its first line says what it shows: no heading, to save height
 		container.NewBorder(heading("Checks"), minHeight(90, container.NewVScroll(c.checkDetail)), nil, nil, c.checkList))
 	readoutAndChecks.SetOffset(0.4)
 	side := container.NewVSplit(
 		container.NewVScroll(c.properties),
 		readoutAndChecks)
-	side.SetOffset(0.25)
+	side.SetOffset(0.3)
 
 	center := container.NewBorder(c.settingsBar(), c.layerBar(), nil, nil, w.draw)
 	warning := widget.NewLabelWithStyle(caution, fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
@@ -171,7 +171,7 @@ func heading(s string) *widget.Label {
 	return widget.NewLabelWithStyle(s, fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
 }
 
-// settingsBar holds the mesh, grid and unit settings above the drawing.
+// settingsBar holds the mesh and grid settings above the drawing (and makes the unit switch the layer bar shows).
 func (c *controls) settingsBar() fyne.CanvasObject {
 	w := c.w
 	c.elements = widget.NewEntry()
@@ -200,11 +200,10 @@ func (c *controls) settingsBar() fyne.CanvasObject {
 	return container.NewHBox(
 		widget.NewLabel("Elements requested"), container.NewGridWrap(fyne.NewSize(70, c.elements.MinSize().Height), c.elements), c.elementsUsed, finer, coarser,
 		c.order,
-		widget.NewLabel("Snap"), container.NewGridWrap(fyne.NewSize(100, c.grid.MinSize().Height), c.grid),
-		c.unitSelect)
+		widget.NewLabel("Snap"), container.NewGridWrap(fyne.NewSize(100, c.grid.MinSize().Height), c.grid))
 }
 
-// layerBar holds the overlay switches and the magnification below the drawing.
+// layerBar holds the overlay switches, the magnification and the units below the drawing.
 func (c *controls) layerBar() fyne.CanvasObject {
 	w := c.w
 	toggle := func(label string, on *bool) fyne.CanvasObject {
@@ -238,7 +237,7 @@ func (c *controls) layerBar() fyne.CanvasObject {
 			toggle("Shear force V", &l.ShearForce), toggle("Bending moment M", &l.BendingMoment),
 			toggle("Stress σ", &l.Stress), toggle("Nodes", &l.Nodes),
 			toggle("Exact vs FE gap", &l.ExactBand), toggle("Dimensions", &l.Dimensions)),
-		container.NewBorder(nil, nil, widget.NewLabel("Deflection scale"), container.NewHBox(c.magnifyText, auto), c.magnify))
+		container.NewBorder(nil, nil, widget.NewLabel("Deflection scale"), container.NewHBox(c.magnifyText, auto, c.unitSelect), c.magnify))
 }
 
 func (c *controls) showMagnification() {
@@ -366,6 +365,12 @@ func errOr(err error, text string) string {
 func (w *Window) setUnits(s units.System) {
 	w.units = s
 	w.project.View.Units = storageUnits(s)
+	// A snap step of 0.1 m reads 0.3281 ft: move it to a round step of the new units.
+	if g := w.project.View.GridStep; g > 0 {
+		w.project.View.GridStep = s.FromDisplay(units.Position, roundStep(s.ToDisplay(units.Position, g)))
+		w.note = " — snap step now " + s.Format(units.Position, w.project.View.GridStep)
+	}
+	w.setStatus("showing %s units", s.Name)
 	w.ui.showGrid()
 	w.ui.showProperties()
 	// Check messages are written in the display units: solve again.
@@ -373,6 +378,19 @@ func (w *Window) setUnits(s units.System) {
 	w.hoverChanged()
 	w.draw.Refresh()
 	w.updateTitle()
+}
+
+// roundStep is the step of the form 1, 2, 2.5 or 5 × 10ⁿ nearest to v > 0
+// on a log scale.
+func roundStep(v float64) float64 {
+	decade := math.Pow(10, math.Floor(math.Log10(v)))
+	best := decade
+	for _, m := range []float64{1, 2, 2.5, 5, 10} {
+		if math.Abs(math.Log(m*decade/v)) < math.Abs(math.Log(best/v)) {
+			best = m * decade
+		}
+	}
+	return best
 }
 
 // hoverChanged updates the readout for the mouse position.
@@ -452,12 +470,12 @@ func (r *readout) show(w *Window) {
 	a := w.result
 	m := &w.project.Model
 	if !d.hovering || a == nil || a.solution == nil || d.hoverX < 0 || d.hoverX > m.Length() {
-		r.grid.SetText(readoutLine("", "FE", "exact", "") + "\n\nMove the mouse over the member to read\nevery result at that point.")
+		r.grid.SetText("At the mouse\n\nMove the mouse over the member to read\nevery result at that point, finite\nelement (FE) beside exact.")
 		return
 	}
 	x := d.hoverX
 	fe := a.solution.At(x, fem.Right)
-	lines := []string{readoutLine("x = "+w.units.Format(units.Position, x), "FE", "exact", "")}
+	lines := []string{readoutLine("at "+w.units.Format(units.Position, x), "FE", "exact", "")}
 	for _, q := range readoutQuantities {
 		exact := "—"
 		if a.exact != nil {
