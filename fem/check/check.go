@@ -141,17 +141,13 @@ func withCaution(r Result) Result {
 	return r
 }
 
-// perElement is how many intervals each element is sampled in; eight
-// resolves the quintic exact deflection well inside the 1 % the checks work to.
-const perElement = 8
-
 // peak is the value a check keeps, and where it occurs.
 type peak struct{ value, x float64 }
 
 // probe holds what the checks read from the solutions, gathered in one walk
-// over the sample points: perElement+1 points per element, both ends
-// included and each seen from inside its element, where both solutions are
-// read once and every check that covers the point takes its value.
+// over the points where fem.CompareVisiting compares them: both solutions
+// are read once per point and every check that covers the point takes its
+// value there.
 type probe struct {
 	model    *fem.Model
 	solution *fem.Solution
@@ -161,7 +157,7 @@ type probe struct {
 	// stress holds per segment the combined stress of largest magnitude
 	// (signed), from whichever solution is larger there.
 	stress []peak
-	// deflection holds per part the largest |w − chord| (see chord).
+	// deflection holds per part the largest |w − chord| (see chordLine).
 	deflection []peak
 	// compression holds per column the largest −N.
 	compression []peak
@@ -171,16 +167,9 @@ type probe struct {
 	norms fem.ErrorNorms
 }
 
-// read walks the sample points of s (and e) once for every check. The
-// error norms are independent of the walk and are measured beside it, so on
-// two cores they cost no extra time.
-func read(m *fem.Model, s *fem.Solution, e *fem.Exact) (p probe) {
-	p = probe{model: m, solution: s, exact: e, parts: stretches(m), columns: columns(m)}
-	if e != nil {
-		norms := make(chan fem.ErrorNorms, 1)
-		go func() { norms <- fem.Compare(s, e) }()
-		defer func() { p.norms = <-norms }()
-	}
+// read walks the points of s (and e) once for every check.
+func read(m *fem.Model, s *fem.Solution, e *fem.Exact) probe {
+	p := probe{model: m, solution: s, exact: e, parts: stretches(m), columns: columns(m)}
 	els := s.Mesh.Elements
 	p.stress = make([]peak, len(m.Segments))
 	for i, seg := range m.Segments {
@@ -205,55 +194,50 @@ func read(m *fem.Model, s *fem.Solution, e *fem.Exact) (p probe) {
 	for k, c := range p.columns {
 		columnCover.set(k, c.a, c.b)
 	}
+	// The solutions in order, finite element first: a later one replaces an
+	// earlier value only when strictly larger in magnitude.
+	larger := func(fromFE, fromExact float64) float64 {
+		best := 0.0
+		if math.Abs(fromFE) > math.Abs(best) {
+			best = fromFE
+		}
+		if e != nil && math.Abs(fromExact) > math.Abs(best) {
+			best = fromExact
+		}
+		return best
+	}
 	var parts, cols []int
-	for i, el := range els {
-		parts, cols = partCover.at(i, parts[:0]), columnCover.at(i, cols[:0])
-		stress := &p.stress[el.Segment]
-		for j := 0; j <= perElement; j++ {
-			x, side := el.Start+(el.End-el.Start)*float64(j)/perElement, fem.Right
-			if j == perElement {
-				x, side = el.End, fem.Left
-			}
-			fe := s.At(x, side)
-			var ex fem.Fields
-			if e != nil {
-				ex = e.At(x, side)
-			}
-			// The solutions in order, finite element first: a later one
-			// replaces an earlier value only when strictly larger in magnitude.
-			larger := func(fromFE, fromExact float64) float64 {
-				best := 0.0
-				if math.Abs(fromFE) > math.Abs(best) {
-					best = fromFE
-				}
-				if e != nil && math.Abs(fromExact) > math.Abs(best) {
-					best = fromExact
-				}
-				return best
-			}
-			if v := larger(fe.CombinedStress, ex.CombinedStress); math.Abs(v) > math.Abs(stress.value) {
-				*stress = peak{v, x}
-			}
-			for _, k := range parts {
-				c := &chords[k]
-				v := larger(fe.Deflection-c[0].at(x), ex.Deflection-c[1].at(x))
-				if math.Abs(v) > p.deflection[k].value {
-					p.deflection[k] = peak{math.Abs(v), x}
-				}
-			}
-			for _, k := range cols {
-				if n := -fe.AxialForce; n > p.compression[k].value {
-					p.compression[k] = peak{n, x}
-				}
-				if n := -ex.AxialForce; e != nil && n > p.compression[k].value {
-					p.compression[k] = peak{n, x}
-				}
-			}
-			if d := math.Abs(fe.CombinedStress - ex.CombinedStress); e != nil && d > p.stressError.value {
-				p.stressError = peak{d, x}
+	element := -1
+	var stress *peak
+	p.norms = fem.CompareVisiting(s, e, func(pt *fem.ComparedPoint) {
+		if pt.Element != element {
+			element = pt.Element
+			parts, cols = partCover.at(element, parts[:0]), columnCover.at(element, cols[:0])
+			stress = &p.stress[els[element].Segment]
+		}
+		x, fe, ex := pt.X, &pt.FE, &pt.Exact
+		if v := larger(fe.CombinedStress, ex.CombinedStress); math.Abs(v) > math.Abs(stress.value) {
+			*stress = peak{v, x}
+		}
+		for _, k := range parts {
+			c := &chords[k]
+			v := larger(fe.Deflection-c[0].at(x), ex.Deflection-c[1].at(x))
+			if math.Abs(v) > p.deflection[k].value {
+				p.deflection[k] = peak{math.Abs(v), x}
 			}
 		}
-	}
+		for _, k := range cols {
+			if n := -fe.AxialForce; n > p.compression[k].value {
+				p.compression[k] = peak{n, x}
+			}
+			if n := -ex.AxialForce; e != nil && n > p.compression[k].value {
+				p.compression[k] = peak{n, x}
+			}
+		}
+		if d := math.Abs(fe.CombinedStress - ex.CombinedStress); e != nil && d > p.stressError.value {
+			p.stressError = peak{d, x}
+		}
+	})
 	return p
 }
 
