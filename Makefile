@@ -53,7 +53,7 @@ fuzz:
 	done
 
 smoke: build
-	./.ci/smoke.sh $(BIN)
+	STAVE_BINARY=$(BIN) ./.ci/smoke.sh
 
 bench: build
 	$(GO) test -run '^$$' -bench . -benchmem ./fem/... ./canvas/... ./app/...
