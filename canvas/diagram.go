@@ -165,8 +165,10 @@ func (b *builder) extremes(c *curve, d diagram, toY func(float64) float32) {
 		return
 	}
 	for _, e := range []extreme{c.hi, c.lo} {
-		// A constant diagram gets one label.
-		if e.value == 0 || (e == c.lo && math.Abs(c.hi.value-c.lo.value) <= 1e-9*math.Abs(c.hi.value)) {
+		// A value at round-off of the diagram's size is a zero and gets no
+		// label; a constant diagram gets one.
+		size := max(math.Abs(c.hi.value), math.Abs(c.lo.value))
+		if math.Abs(e.value) <= 1e-9*size || (e == c.lo && math.Abs(c.hi.value-c.lo.value) <= 1e-9*math.Abs(c.hi.value)) {
 			continue
 		}
 		px, py := b.sx(e.x), toY(e.value)

@@ -44,6 +44,16 @@ type Input struct {
 	// Highlight is an x range (m) shaded across all strips, e.g. the place of a
 	// selected check; {0, 0} means none.
 	Highlight [2]float64
+	// Marks are places the checks point at, drawn as small markers along
+	// the foot of the sketch with CheckMark handles.
+	Marks []Mark
 	// Cache, when not nil, keeps sampled results between builds (see Cache).
 	Cache *Cache
+}
+
+// Mark is one marked check.
+type Mark struct {
+	X      float64 // where the check points, m
+	Index  int     // the caller's check index, returned as Ref.Index of its handle
+	Severe bool    // a failed check (drawn in the problem colour) rather than a warning
 }

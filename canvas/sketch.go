@@ -6,6 +6,7 @@ import (
 	"math"
 	"sort"
 	"strconv"
+	"strings"
 
 	"stave/fem"
 	"stave/fem/units"
@@ -57,7 +58,29 @@ func (b *builder) sketch(lay layoutBands) {
 	if b.in.Unreliable {
 		b.text("UNRELIABLE RESULTS: read the warnings", b.v.Width-8, lay.top+26, labelSize, 1, 0, problemColour, true)
 	}
+	b.marks(lay.sketchBottom - 4)
 	b.line(faintColour, 0.75, Point{0, lay.sketchBottom}, Point{b.v.Width, lay.sketchBottom})
+}
+
+// marks draws a small triangle pointing up at each marked check, its tip
+// at y − 9 and its base on y, with a CheckMark handle.
+func (b *builder) marks(y float32) {
+	for _, mk := range b.in.Marks {
+		x := b.sx(mk.X)
+		if x < -10 || x > b.v.Width+10 {
+			continue
+		}
+		c := rgb(0xc8, 0x8a, 0x00) // amber: a warning
+		if mk.Severe {
+			c = problemColour
+		}
+		ref := Ref{Kind: CheckMark, Index: mk.Index}
+		if b.in.Selected == ref {
+			c = selectedColour
+		}
+		b.polygon(c, white, 1, Point{x, y - 9}, Point{x + 6, y}, Point{x - 6, y})
+		b.handle(ref, 7, Point{x, y - 4})
+	}
 }
 
 // segments marks segment breaks across the member and labels each segment.
@@ -173,6 +196,43 @@ func (b *builder) support(i int, sp fem.Support, y float32) {
 	}
 	b.handle(ref, 16, Point{x, y + 14})
 	b.occupy(rect{x - 22, y - 20, x + 22, y + supportHeight + 4})
+	b.settlement(sp, x, y, c)
+}
+
+// settlement marks the prescribed displacements of a support beside its
+// symbol: an arrow in the direction of each settled translation, then the
+// values.
+func (b *builder) settlement(sp fem.Support, x, y float32, c color.NRGBA) {
+	var parts []string
+	names := [3]string{"settles along ", "settles ", "turns "}
+	qs := [3]units.Quantity{units.Deflection, units.Deflection, units.Rotation}
+	for d := range 3 {
+		v := sp.Settlement[d]
+		if v == 0 || !sp.Kind.Restrains(fem.Dof(d)) {
+			continue
+		}
+		parts = append(parts, names[d]+b.format(qs[d], v))
+		switch fem.Dof(d) {
+		case fem.Transverse:
+			dy := float32(-14) // up is positive
+			if v < 0 {
+				dy = 14
+			}
+			tail := Point{x + 26, y + 10 - dy/2}
+			b.arrow(tail, Point{tail.X, tail.Y + dy}, c, 1.3, 5)
+		case fem.Axial:
+			dx := float32(14)
+			if v < 0 {
+				dx = -14
+			}
+			tail := Point{x - dx/2, y + supportHeight + 2}
+			b.arrow(tail, Point{tail.X + dx, tail.Y}, c, 1.3, 5)
+		}
+	}
+	if len(parts) > 0 {
+		b.label(strings.Join(parts, ", "), smallSize, c, false, true,
+			labelSpot{x + 32, y + 10, 0, 0.5}, labelSpot{x - 32, y + 10, 1, 0.5}, labelSpot{x + 32, y - 12, 0, 0.5})
+	}
 }
 
 func (b *builder) triangle(x, top float32, c color.NRGBA) {
@@ -279,18 +339,41 @@ func (b *builder) pointLoad(i int, p fem.PointLoad, y float32) {
 	if p.Moment != 0 {
 		b.momentArrow(Point{x, y}, 16, p.Moment > 0, c)
 		b.label(b.format(units.Moment, math.Abs(p.Moment)), smallSize, c, false, true,
-			labelSpot{x + 20, y - 18, 0, 1}, labelSpot{x - 20, y - 18, 1, 1})
+			labelSpot{x + 20, y - 18, 0, 1}, labelSpot{x - 20, y - 18, 1, 1},
+			labelSpot{x, min(y-18, b.loadTop(p.X)-4), 0.5, 1})
 		b.handle(ref, 16, Point{x, y})
 	}
 }
 
+// pointLabel labels a force arrow at its tail, or, when the arrows of a
+// distributed load are in the way, above the load's outline.
 func (b *builder) pointLabel(s string, tail Point, ay float32) {
 	off := float32(-3)
 	if ay == 0 {
 		off = 3
 	}
-	b.label(s, smallSize, loadColour, false, true,
-		labelSpot{tail.X, tail.Y + off, 0.5, ay}, labelSpot{tail.X + 4, tail.Y + off, 0, ay}, labelSpot{tail.X - 4, tail.Y + off, 1, ay})
+	spots := []labelSpot{{tail.X, tail.Y + off, 0.5, ay}, {tail.X + 4, tail.Y + off, 0, ay}, {tail.X - 4, tail.Y + off, 1, ay}}
+	if top := b.loadTop(b.v.ToModelX(tail.X)); ay == 1 && top < tail.Y {
+		spots = append(spots, labelSpot{tail.X, top - 4, 0.5, 1})
+	}
+	b.label(s, smallSize, loadColour, false, true, spots...)
+}
+
+// loadTop is the highest screen y of the distributed loads drawn at x, or
+// LoadBaseY where there are none.
+func (b *builder) loadTop(x float64) float32 {
+	top := b.s.LoadBaseY
+	for _, d := range b.in.Model.DistributedLoad {
+		if len(d.Points) < 2 || x < d.Points[0].X || x > d.Points[len(d.Points)-1].X {
+			continue
+		}
+		sign := 1.0
+		if d.Direction == fem.Axial {
+			sign = -1
+		}
+		top = min(top, b.s.LoadBaseY+float32(sign*intensityAt(d.Points, x)/b.s.LoadScale))
+	}
+	return top
 }
 
 // momentArrow draws a 270° arc around c with a head at its end; the arc opens
@@ -356,20 +439,24 @@ func (b *builder) distributedLoads(lay layoutBands) {
 		b.polygon(withAlpha(c, 0x22), c, 1.3, outline...)
 		b.loadArrows(d, base, ordinate, c)
 		b.handle(ref, 3, outline...)
-		// Label the largest ordinate.
-		k := 0
+		// Label both ends, every vertex when selected; one label for a uniform load.
 		for j, p := range d.Points {
-			if math.Abs(p.Intensity) > math.Abs(d.Points[k].Intensity) {
-				k = j
+			inner := j > 0 && j < len(d.Points)-1
+			if inner && !selected || j > 0 && p.Intensity == d.Points[j-1].Intensity && len(d.Points) == 2 {
+				continue
 			}
+			pk := outline[j+1]
+			ay := float32(1)
+			if pk.Y > base {
+				ay = 0
+			}
+			dy := float32(-3)
+			if ay == 0 {
+				dy = 3
+			}
+			b.label(b.format(units.LineLoad, math.Abs(p.Intensity)), smallSize, c, false, true,
+				labelSpot{pk.X, pk.Y + dy, 0.5, ay}, labelSpot{pk.X + 4, pk.Y + dy, 0, ay}, labelSpot{pk.X - 4, pk.Y + dy, 1, ay})
 		}
-		pk := outline[k+1]
-		ay := float32(1)
-		if pk.Y > base {
-			ay = 0
-		}
-		b.label(b.format(units.LineLoad, math.Abs(d.Points[k].Intensity)), smallSize, c, false, true,
-			labelSpot{pk.X, pk.Y - 3 + 6*ay*0, 0.5, ay}, labelSpot{pk.X + 4, pk.Y - 3, 0, ay})
 		for j := range d.Points {
 			vp := outline[j+1]
 			vref := Ref{Kind: LoadVertex, Index: i, Vertex: j}
@@ -408,6 +495,7 @@ func (b *builder) loadArrows(d fem.DistributedLoad, base float32, ordinate func(
 		}
 		if q < 0 {
 			b.arrow(Point{px, oy}, Point{px, base}, c, 1, 6)
+			b.occupy(rect{px - 3, oy, px + 3, base})
 		} else {
 			b.arrow(Point{px, base + 2*memberWidth}, Point{px, base + memberWidth + 2}, c, 1, 6)
 		}

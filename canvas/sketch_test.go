@@ -1,0 +1,113 @@
+package canvas
+
+import (
+	"regexp"
+	"strings"
+	"testing"
+
+	"stave/fem"
+)
+
+// texts lists the text items of a scene with their boxes.
+func texts(s *Scene) map[string]rect {
+	out := map[string]rect{}
+	for _, it := range s.Items {
+		if it.Kind == Text {
+			out[it.Text] = rect{it.At.X, it.At.Y, it.At.X + it.Width, it.At.Y + textHeight(it.Size)}
+		}
+	}
+	return out
+}
+
+func hasText(s *Scene, want string) bool {
+	for text := range texts(s) {
+		if strings.Contains(text, want) {
+			return true
+		}
+	}
+	return false
+}
+
+// A trapezoidal load is labelled at both ends; a polyline shows its inner
+// vertices' values only while selected.
+func TestDistributedLoadLabels(t *testing.T) {
+	m := demoModel(20) // load from 8 kN/m at x = 0 to 14 kN/m at 4.5 m, downward
+	v := NewView(1000, 800)
+	v.Fit(m)
+	s := Build(solved(t, m), v)
+	for _, want := range []string{"8.000 kN/m", "14.00 kN/m"} {
+		if !hasText(s, want) {
+			t.Errorf("trapezoidal load: no label %q among %v", want, texts(s))
+		}
+	}
+	m.DistributedLoad[0].Points = []fem.LoadPoint{{X: 0, Intensity: -8e3}, {X: 2.5, Intensity: -11e3}, {X: 4.5, Intensity: -14e3}}
+	in := solved(t, m)
+	if s := Build(in, v); hasText(s, "11.00 kN/m") {
+		t.Errorf("unselected polyline load labels its inner vertex")
+	}
+	in.Selected = Ref{Kind: DistributedLoad, Index: 0}
+	if s := Build(in, v); !hasText(s, "11.00 kN/m") || !hasText(s, "8.000 kN/m") || !hasText(s, "14.00 kN/m") {
+		t.Errorf("selected polyline load: want all three vertex values among %v", texts(s))
+	}
+}
+
+// The labels of point forces and moments stay clear of the arrows of a
+// distributed load under them.
+func TestLoadLabelsClearOfArrows(t *testing.T) {
+	m := demoModel(20)
+	v := NewView(1000, 800)
+	v.Fit(m)
+	s := Build(solved(t, m), v)
+	boxes := texts(s)
+	var shafts [][2]Point
+	for _, it := range s.Items {
+		if it.Kind == Polyline && it.Stroke == loadColour && it.StrokeWidth == 1 && len(it.Points) == 2 && it.Points[0].X == it.Points[1].X {
+			shafts = append(shafts, [2]Point{it.Points[0], it.Points[1]})
+		}
+	}
+	if len(shafts) < 10 {
+		t.Fatalf("found %d arrows under the distributed load, want many", len(shafts))
+	}
+	for _, label := range []string{"20.00 kN", "8.000 kN·m"} {
+		r, ok := boxes[label]
+		if !ok {
+			t.Errorf("no label %q", label)
+			continue
+		}
+		for _, sh := range shafts {
+			if sh[0].X > r.x0 && sh[0].X < r.x1 && min(sh[0].Y, sh[1].Y) < r.y1 && max(sh[0].Y, sh[1].Y) > r.y0 {
+				t.Errorf("label %q at %+v crosses the load arrow at x = %.0f px", label, r, sh[0].X)
+				break
+			}
+		}
+	}
+}
+
+// A settled support shows its settlement; marked checks get markers the
+// mouse finds; an extreme at round-off (the moment at a free end) gets no
+// label.
+func TestSettlementMarksAndRoundOff(t *testing.T) {
+	m := demoModel(16)
+	m.Supports[1].Settlement = [3]float64{0, -0.01, 0}
+	// A spring under the free end leaves M there at round-off, not zero.
+	m.Supports = append(m.Supports, fem.Support{X: 6, Kind: fem.Spring, Stiffness: [3]float64{0, 1e6, 0}})
+	in := solved(t, m)
+	in.Marks = []Mark{{X: 2, Index: 3, Severe: true}, {X: 5, Index: 7}}
+	v := NewView(1000, 800)
+	v.Fit(m)
+	s := Build(in, v)
+	if !hasText(s, "settles -10.00 mm") {
+		t.Errorf("settled roller: no settlement label among %v", texts(s))
+	}
+	for _, mk := range in.Marks {
+		if got := s.HitTest(v.ToScreenX(mk.X), s.SketchBottom-8, 2); got != (Ref{Kind: CheckMark, Index: mk.Index}) {
+			t.Errorf("marker at x = %g m: hit %+v, want check mark %d", mk.X, got, mk.Index)
+		}
+	}
+	roundOff := regexp.MustCompile(`e-1\d`)
+	for text := range texts(s) {
+		if roundOff.MatchString(text) {
+			t.Errorf("label %q shows a round-off value", text)
+		}
+	}
+}
