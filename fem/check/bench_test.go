@@ -24,14 +24,7 @@ func BenchmarkRun(b *testing.B) {
 		b.Run(fmt.Sprintf("elements=%d", elements), func(b *testing.B) {
 			m := loadModel(b, "demo.json")
 			m.Mesh.Elements, m.Mesh.MaxElementLength = elements, 0
-			s, err := fem.Solve(m)
-			if err != nil {
-				b.Fatal(err)
-			}
-			e, err := fem.SolveExact(m)
-			if err != nil {
-				b.Fatal(err)
-			}
+			s, e := solveBoth(b, m)
 			b.ReportAllocs()
 			for b.Loop() {
 				Run(m, s, e, Options{})

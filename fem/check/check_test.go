@@ -24,7 +24,7 @@ func uniform(q, a, b float64) fem.DistributedLoad {
 	return fem.DistributedLoad{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: a, Intensity: q}, {X: b, Intensity: q}}}
 }
 
-func solveBoth(t *testing.T, m *fem.Model) (*fem.Solution, *fem.Exact) {
+func solveBoth(t testing.TB, m *fem.Model) (*fem.Solution, *fem.Exact) {
 	t.Helper()
 	s, err := fem.Solve(m)
 	if err != nil {
