@@ -46,7 +46,7 @@ func (b *builder) diagrams(lay layoutBands) {
 	var ex []*curve
 	var gaps []extreme
 	if b.in.Exact != nil && b.in.Layers.ExactBand {
-		ex, gaps = exactCurves(b.in.Exact, b.in.Solution, b.in.Model, b.v, qs)
+		ex, gaps = exactCurves(b.in.Exact, b.in.Solution, b.in.Model, b.v, qs, b.in.Cache)
 	}
 	for i, st := range lay.strips {
 		var f, e *curve

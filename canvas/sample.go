@@ -302,10 +302,15 @@ func combinedStress(axialForce, moment float64, sec fem.Section) float64 {
 // exactCurves reads the exact solution once per pixel column and on both
 // sides of every key point, and measures the gap to the finite element
 // solution (when s is not nil) at the same places.
-func exactCurves(e *fem.Exact, s *fem.Solution, m *fem.Model, v View, qs []quantity) (cs []*curve, gaps []extreme) {
-	cs = make([]*curve, len(qs))
-	for i := range cs {
-		cs[i] = newCurve(v)
+func exactCurves(e *fem.Exact, s *fem.Solution, m *fem.Model, v View, qs []quantity, c *Cache) (cs []*curve, gaps []extreme) {
+	var memory []*curve
+	if c != nil {
+		memory = c.exact
+		defer func() { c.exact = memory }()
+	}
+	cs = grow(&memory, len(qs))
+	for _, cv := range cs {
+		cv.reset(v)
 	}
 	gaps = make([]extreme, len(qs))
 	l := m.Length()
@@ -361,6 +366,15 @@ type Cache struct {
 	width     float32
 	names     string
 	sampled   []*curve
+	exact     []*curve // memory for the exact curves, read anew each build
+}
+
+// grow returns the first n of *cs, adding empty curves as needed.
+func grow(cs *[]*curve, n int) []*curve {
+	for len(*cs) < n {
+		*cs = append(*cs, &curve{})
+	}
+	return (*cs)[:n]
 }
 
 // curves returns the sampled curves of qs, reading the solution only when the
@@ -375,10 +389,7 @@ func (c *Cache) curves(s *fem.Solution, v View, qs []quantity) []*curve {
 	} else if c.solution == s && c.x0 == v.X0 && c.scale == v.Scale && c.width == v.Width && c.names == names {
 		return c.sampled[:len(qs)]
 	}
-	for len(c.sampled) < len(qs) {
-		c.sampled = append(c.sampled, &curve{})
-	}
-	cs := c.sampled[:len(qs)]
+	cs := grow(&c.sampled, len(qs))
 	sampleCurves(s, v, qs, cs)
 	c.solution, c.x0, c.scale, c.width, c.names = s, v.X0, v.Scale, v.Width, names
 	return cs
