@@ -25,8 +25,11 @@ type quantity struct {
 type variation int
 
 const (
+	// general quantities must be read at the end; the zero value, so that a
+	// quantity nobody classified is read, not guessed.
+	general variation = iota
 	// nodal quantities end on the node's own displacement.
-	nodal variation = iota
+	nodal
 	// constant quantities end on their value at the start.
 	constant
 	// sloped quantities end on the value at the start plus the shear force
@@ -243,12 +246,13 @@ func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, t
 		}
 	}
 	// What a narrow element's ends need: an evaluation at the start unless
-	// every quantity is nodal, and one at the end if the axial force varies
-	// inside the elements (quadratic bars) and is drawn or makes the stress.
+	// every quantity is nodal, and one at the end for a general quantity or
+	// if the axial force varies inside the elements (quadratic bars) and is
+	// drawn or makes the stress.
 	readStart, readEnd := false, false
 	for _, q := range qs {
 		readStart = readStart || q.within != nodal
-		readEnd = readEnd || (q.within == constantInLinearBar || q.within == extremeFibre) &&
+		readEnd = readEnd || q.within == general || (q.within == constantInLinearBar || q.within == extremeFibre) &&
 			s.Model.Mesh.BarOrder == fem.QuadraticBar
 	}
 	// The fields of the samples, kept in one place: passed by pointer to the

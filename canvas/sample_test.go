@@ -46,24 +46,30 @@ func sampledByAt(s *fem.Solution, v View, qs []quantity) []*curve {
 // Covers wide and narrow elements, both bar orders, a zoomed view and enough
 // elements for the two-goroutine read.
 func TestSampleCurvesMatchReadingEveryEnd(t *testing.T) {
-	var qs []quantity
+	var drawn []quantity
 	for _, d := range diagramsList {
-		qs = append(qs, d.quantity)
+		drawn = append(drawn, d.quantity)
 	}
-	qs = append(qs, deflectionQuantity)
+	drawn = append(drawn, deflectionQuantity)
+	// A quantity left unclassified is read at both ends.
+	rotation := quantity{name: "rotation", get: func(f *fem.Fields) float64 { return f.Rotation }}
 	for _, c := range []struct {
 		elements int
 		order    fem.ElementOrder
 		zoom     float32
+		qs       []quantity
 	}{
-		{12, fem.LinearBar, 1},
-		{3000, fem.LinearBar, 1},
-		{3000, fem.QuadraticBar, 1},
-		{3000, fem.LinearBar, 40},
-		{2 * parallelElements, fem.LinearBar, 1},
-		{2 * parallelElements, fem.QuadraticBar, 1},
+		{12, fem.LinearBar, 1, drawn},
+		{3000, fem.LinearBar, 1, drawn},
+		{3000, fem.QuadraticBar, 1, drawn},
+		{3000, fem.LinearBar, 40, drawn},
+		{3000, fem.LinearBar, 1, []quantity{deflectionQuantity}},
+		{3000, fem.LinearBar, 1, append([]quantity{rotation}, drawn...)},
+		{2 * parallelElements, fem.LinearBar, 1, drawn},
+		{2 * parallelElements, fem.QuadraticBar, 1, drawn},
 	} {
-		t.Run(fmt.Sprintf("%d elements, bar order %d, zoom %g", c.elements, c.order, c.zoom), func(t *testing.T) {
+		qs := c.qs
+		t.Run(fmt.Sprintf("%d elements, bar order %d, zoom %g, %s…", c.elements, c.order, c.zoom, qs[0].name), func(t *testing.T) {
 			m := demoModel(c.elements)
 			m.Mesh.BarOrder = c.order
 			m.PointLoads[1].Axial = 60e3 // a varying axial force in the second segment
