@@ -249,8 +249,9 @@ func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, t
 	// every quantity is nodal, and one at the end for a general quantity or
 	// if the axial force varies inside the elements (quadratic bars) and is
 	// drawn or makes the stress.
-	readStart, readEnd := false, false
+	readStart, readEnd, stress := false, false, false
 	for _, q := range qs {
+		stress = stress || q.within == extremeFibre
 		readStart = readStart || q.within != nodal
 		readEnd = readEnd || q.within == general || (q.within == constantInLinearBar || q.within == extremeFibre) &&
 			s.Model.Mesh.BarOrder == fem.QuadraticBar
@@ -286,7 +287,9 @@ func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, t
 				ShearForce:    start.ShearForce,
 				BendingMoment: start.BendingMoment + start.ShearForce*h,
 			}
-			end.CombinedStress = combinedStress(end.AxialForce, end.BendingMoment, s.Model.Segments[e.Segment].Section)
+			if stress {
+				end.CombinedStress = combinedStress(end.AxialForce, end.BendingMoment, s.Model.Segments[e.Segment].Section)
+			}
 		}
 		add(e.Start, start)
 		add(e.End, end)
