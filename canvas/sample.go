@@ -77,12 +77,6 @@ func (c *curve) reset(v View) {
 	*c = curve{v: v, cols: c.cols, lo: extreme{value: math.Inf(1)}, hi: extreme{value: math.Inf(-1)}}
 }
 
-func newCurve(v View) *curve {
-	c := &curve{}
-	c.reset(v)
-	return c
-}
-
 // column is the index of the column holding model x.
 func (c *curve) column(x float64) int {
 	k := int(math.Floor(float64(c.v.ToScreenX(x)))) + 1
@@ -200,8 +194,9 @@ const maxSamplesPerElement = 48
 // than a few pixels are sampled inside; narrower ones give only their end
 // values, so the work is about one evaluation per visible element (the end
 // follows from the start, see variation) and the result is bounded by the
-// width. Many visible elements are read in two halves at once, one per core.
-func sampleCurves(s *fem.Solution, v View, qs []quantity, cs []*curve) {
+// width. Many visible elements are read in two halves at once, one per core,
+// the second into the curves of half (one per quantity).
+func sampleCurves(s *fem.Solution, v View, qs []quantity, cs, half []*curve) {
 	for _, c := range cs {
 		c.reset(v)
 	}
@@ -213,9 +208,9 @@ func sampleCurves(s *fem.Solution, v View, qs []quantity, cs []*curve) {
 		sampleElements(s, v, qs, cs, first, end)
 	} else {
 		mid := (first + end) / 2
-		second := make([]*curve, len(cs))
-		for i := range second {
-			second[i] = newCurve(v)
+		second := half[:len(cs)]
+		for _, c := range second {
+			c.reset(v)
 		}
 		done := make(chan struct{})
 		go func() {
@@ -234,8 +229,9 @@ func sampleCurves(s *fem.Solution, v View, qs []quantity, cs []*curve) {
 }
 
 // parallelElements is the number of visible elements from which sampleCurves
-// reads two halves at once: below it a second goroutine costs more than it saves.
-const parallelElements = 100_000
+// reads two halves at once: below it a second goroutine costs more than it
+// saves (a few microseconds against about 0.1 µs per element).
+const parallelElements = 4096
 
 // sampleElements adds the samples of elements from ≤ i < to to cs.
 func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, to int) {
@@ -373,6 +369,7 @@ type Cache struct {
 	width     float32
 	names     string
 	sampled   []*curve
+	half      []*curve // memory for the second half of a two-goroutine read
 	exact     []*curve // memory for the exact curves, read anew each build
 }
 
@@ -397,7 +394,7 @@ func (c *Cache) curves(s *fem.Solution, v View, qs []quantity) []*curve {
 		return c.sampled[:len(qs)]
 	}
 	cs := grow(&c.sampled, len(qs))
-	sampleCurves(s, v, qs, cs)
+	sampleCurves(s, v, qs, cs, grow(&c.half, len(qs)))
 	c.solution, c.x0, c.scale, c.width, c.names = s, v.X0, v.Scale, v.Width, names
 	return cs
 }

@@ -14,7 +14,8 @@ import (
 func sampledByAt(s *fem.Solution, v View, qs []quantity) []*curve {
 	cs := make([]*curve, len(qs))
 	for i := range cs {
-		cs[i] = newCurve(v)
+		cs[i] = &curve{}
+		cs[i].reset(v)
 	}
 	lo, hi := v.ToModelX(-1), v.ToModelX(v.Width+1)
 	for _, e := range s.Mesh.Elements {
@@ -82,11 +83,8 @@ func TestSampleCurvesMatchReadingEveryEnd(t *testing.T) {
 			v := NewView(1100, 800)
 			v.Fit(m)
 			v.Zoom(c.zoom, 500)
-			got := make([]*curve, len(qs))
-			for i := range got {
-				got[i] = &curve{}
-			}
-			sampleCurves(s, v, qs, got)
+			var got, half []*curve
+			sampleCurves(s, v, qs, grow(&got, len(qs)), grow(&half, len(qs)))
 			want := sampledByAt(s, v, qs)
 			for i, q := range qs {
 				g, w := got[i], want[i]
