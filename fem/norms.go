@@ -64,11 +64,12 @@ func Compare(s *Solution, e *Exact) ErrorNorms { return CompareVisiting(s, e, ni
 // that need both solutions at those points read them there at no further
 // cost. With e nil it visits the finite element fields alone (Exact zero)
 // and returns the zero value. The point is reused between calls: copy what
-// is kept.
+// is kept. visit is called on the caller's goroutine.
 //
-// One walk over the elements does all of it: each point is evaluated in its
-// own element, and the exact solution on the stretch holding the element
-// (elements never cross a key point), so nothing is searched for.
+// Each point is evaluated in its own element, and the exact solution on the
+// stretch holding the element (elements never cross a key point), so nothing
+// is searched for. The maxima and the integrals are independent walks over
+// the elements and run at once, the integrals on a second goroutine.
 func CompareVisiting(s *Solution, e *Exact, visit func(*ComparedPoint)) ErrorNorms {
 	var out ErrorNorms
 	if s == nil {
@@ -88,71 +89,120 @@ func CompareVisiting(s *Solution, e *Exact, visit func(*ComparedPoint)) ErrorNor
 		}
 		return out
 	}
-	var gauss [gaussPoints]struct{ xi, w float64 }
-	{
-		xs, ws := make([]float64, gaussPoints), make([]float64, gaussPoints)
-		quad.Legendre{}.FixedLocations(xs, ws, 0, 1)
-		for q := range gauss {
-			gauss[q].xi, gauss[q].w = xs[q], ws[q]
-		}
-	}
-	exact := make([]stretchPolynomials, len(e.stretches))
+	c := comparison{solution: s, exact: make([]stretchPolynomials, len(e.stretches))}
 	tolerance := mergeTolerance * e.keys[len(e.keys)-1]
-	for j := range exact {
-		exact[j] = newStretchPolynomials(&e.stretches[j], tolerance)
+	for j := range c.exact {
+		c.exact[j] = newStretchPolynomials(&e.stretches[j], tolerance)
 	}
-	var maxStress, stressTerms, stressTermsFE float64
-	// Squared integrals: displacement error, exact and finite element
-	// displacements; energy of the error, of the exact and of the finite
-	// element solution, and of the terms that make the exact N and M.
-	var dispErr, disp, dispFE, energyErr, energy, energyTerms, energyTermsFE float64
+	integrals := make(chan errorIntegrals, 1)
+	go func() { integrals <- c.integrals() }()
+	m := c.maxima(visit)
+	in := <-integrals
+	out.MaxDeflection, out.MaxAxial, out.MaxStress = m.deflection, m.axial, m.stress
+	out.MaxStressRelative = relativeError(m.stress, m.exactStress, m.exactStressTerms, in.stressTermsFE)
+	out.RelativeL2 = relativeError(math.Sqrt(in.dispErr), math.Sqrt(in.disp), math.Sqrt(in.disp), math.Sqrt(in.dispFE))
+	out.RelativeEnergy = relativeError(math.Sqrt(in.energyErr), math.Sqrt(in.energy), math.Sqrt(in.energyTerms), math.Sqrt(in.energyTermsFE))
+	return out
+}
+
+// comparison holds a solution and the exact one, stretch by stretch, for
+// the walks of CompareVisiting; both walks only read it.
+type comparison struct {
+	solution *Solution
+	exact    []stretchPolynomials
+}
+
+// stretchFor returns the exact stretch holding el, advancing *j, which the
+// elements of one walk move along the member.
+func (c *comparison) stretchFor(el Element, j *int) *stretchPolynomials {
+	for mid := el.Start + (el.End-el.Start)/2; *j+1 < len(c.exact) && c.exact[*j+1].start <= mid; {
+		*j++
+	}
+	return &c.exact[*j]
+}
+
+// errorMaxima are the largest errors and the sizes they are judged against.
+type errorMaxima struct {
+	deflection, axial, stress float64 // max |w_h − w| (m), |u_h − u| (m), |σ_h − σ| (Pa)
+	exactStress               float64 // max |σ|, Pa
+	exactStressTerms          float64 // max of the sizes of the terms that make σ, Pa
+}
+
+// maxima takes the largest errors at the ComparePoints+1 points of every
+// element, showing each point to visit.
+func (c *comparison) maxima(visit func(*ComparedPoint)) errorMaxima {
+	var out errorMaxima
 	var p ComparedPoint
 	j := 0
-	for i, el := range s.Mesh.Elements {
-		h := el.End - el.Start
-		for mid := el.Start + h/2; j+1 < len(exact) && exact[j+1].start <= mid; {
-			j++
-		}
-		ex := &exact[j]
-		seg := s.Model.Segments[el.Segment]
-		sec := seg.Section
+	for i, el := range c.solution.Mesh.Elements {
+		ex := c.stretchFor(el, &j)
+		sec := c.solution.Model.Segments[el.Segment].Section
 		p.Element = i
 		for k := 0; k <= ComparePoints; k++ {
 			x := comparePoint(el, k)
-			p.X, p.FE = x, s.inElement(i, x)
-			f, g := &p.FE, ex.at(x, &p.Exact)
-			out.MaxDeflection = math.Max(out.MaxDeflection, math.Abs(f.Deflection-g.Deflection))
-			out.MaxAxial = math.Max(out.MaxAxial, math.Abs(f.AxialDisplacement-g.AxialDisplacement))
-			out.MaxStress = math.Max(out.MaxStress, math.Abs(f.CombinedStress-g.CombinedStress))
-			maxStress = math.Max(maxStress, math.Abs(g.CombinedStress))
-			stressTerms = math.Max(stressTerms, ex.axialTerms/sec.Area+ex.bendingTerms*sec.FibreDistance/sec.SecondMoment)
+			p.X, p.FE = x, c.solution.inElement(i, x)
+			axialTerms, bendingTerms := ex.at(x, &p.Exact)
+			f, g := &p.FE, &p.Exact
+			out.deflection = math.Max(out.deflection, math.Abs(f.Deflection-g.Deflection))
+			out.axial = math.Max(out.axial, math.Abs(f.AxialDisplacement-g.AxialDisplacement))
+			out.stress = math.Max(out.stress, math.Abs(f.CombinedStress-g.CombinedStress))
+			out.exactStress = math.Max(out.exactStress, math.Abs(g.CombinedStress))
+			out.exactStressTerms = math.Max(out.exactStressTerms, axialTerms/sec.Area+bendingTerms*sec.FibreDistance/sec.SecondMoment)
 			if visit != nil {
 				visit(&p)
 			}
 		}
+	}
+	return out
+}
+
+// errorIntegrals are the squared integrals of the norms: displacement error,
+// exact and finite element displacements; energy of the error, of the exact
+// and of the finite element solution, of the terms that make the exact N
+// and M and of those of the finite element ones; with the largest stress the
+// finite element terms make.
+type errorIntegrals struct {
+	dispErr, disp, dispFE                         float64
+	energyErr, energy, energyTerms, energyTermsFE float64
+	stressTermsFE                                 float64
+}
+
+// integrals integrates the squared errors element by element by
+// Gauss–Legendre quadrature.
+func (c *comparison) integrals() errorIntegrals {
+	var gauss [gaussPoints]struct{ xi, w float64 }
+	xs, ws := make([]float64, gaussPoints), make([]float64, gaussPoints)
+	quad.Legendre{}.FixedLocations(xs, ws, 0, 1)
+	for q := range gauss {
+		gauss[q].xi, gauss[q].w = xs[q], ws[q]
+	}
+	var out errorIntegrals
+	var g Fields
+	j := 0
+	for i, el := range c.solution.Mesh.Elements {
+		ex := c.stretchFor(el, &j)
+		h := el.End - el.Start
+		seg := c.solution.Model.Segments[el.Segment]
+		sec := seg.Section
 		ea := seg.Material.Elastic * sec.Area
 		ei := seg.Material.Elastic * sec.SecondMoment
-		na, ma := s.actionMagnitudes(el)
-		energyTermsFE += (na*na/ea + ma*ma/ei) * h
-		stressTermsFE = math.Max(stressTermsFE, na/sec.Area+ma*sec.FibreDistance/sec.SecondMoment)
-		var g Fields
+		na, ma := c.solution.actionMagnitudes(el)
+		out.energyTermsFE += (na*na/ea + ma*ma/ei) * h
+		out.stressTermsFE = math.Max(out.stressTermsFE, na/sec.Area+ma*sec.FibreDistance/sec.SecondMoment)
 		for _, q := range gauss {
 			x, w := el.Start+h*q.xi, h*q.w
-			f := s.inElement(i, x)
-			ex.at(x, &g)
+			f := c.solution.inElement(i, x)
+			axialTerms, bendingTerms := ex.at(x, &g)
 			du, dw := f.AxialDisplacement-g.AxialDisplacement, f.Deflection-g.Deflection
 			dn, dm := f.AxialForce-g.AxialForce, f.BendingMoment-g.BendingMoment
-			dispErr += w * (du*du + dw*dw)
-			disp += w * (g.AxialDisplacement*g.AxialDisplacement + g.Deflection*g.Deflection)
-			dispFE += w * (f.AxialDisplacement*f.AxialDisplacement + f.Deflection*f.Deflection)
-			energyErr += w * (dn*dn/ea + dm*dm/ei)
-			energy += w * (g.AxialForce*g.AxialForce/ea + g.BendingMoment*g.BendingMoment/ei)
-			energyTerms += w * (ex.axialTerms*ex.axialTerms/ea + ex.bendingTerms*ex.bendingTerms/ei)
+			out.dispErr += w * (du*du + dw*dw)
+			out.disp += w * (g.AxialDisplacement*g.AxialDisplacement + g.Deflection*g.Deflection)
+			out.dispFE += w * (f.AxialDisplacement*f.AxialDisplacement + f.Deflection*f.Deflection)
+			out.energyErr += w * (dn*dn/ea + dm*dm/ei)
+			out.energy += w * (g.AxialForce*g.AxialForce/ea + g.BendingMoment*g.BendingMoment/ei)
+			out.energyTerms += w * (axialTerms*axialTerms/ea + bendingTerms*bendingTerms/ei)
 		}
 	}
-	out.MaxStressRelative = relativeError(out.MaxStress, maxStress, stressTerms, stressTermsFE)
-	out.RelativeL2 = relativeError(math.Sqrt(dispErr), math.Sqrt(disp), math.Sqrt(disp), math.Sqrt(dispFE))
-	out.RelativeEnergy = relativeError(math.Sqrt(energyErr), math.Sqrt(energy), math.Sqrt(energyTerms), math.Sqrt(energyTermsFE))
 	return out
 }
 
@@ -175,9 +225,6 @@ type stretchPolynomials struct {
 	area, fibre, secondMoment    float64 // A (m²), c (m), I (m⁴)
 	// coeff[k][q] multiplies t^k in quantity q (see the exact* indices).
 	coeff [6][exactQuantities]float64
-	// The sizes of the terms that make N and M at the last point evaluated
-	// (see Exact.actionMagnitudes): round-off in them is relative to these.
-	axialTerms, bendingTerms float64 // N, N·m
 }
 
 // Indices of the quantities in stretchPolynomials.coeff: u, w, θ, N without
@@ -218,8 +265,10 @@ func newStretchPolynomials(s *exactStretch, tolerance float64) stretchPolynomial
 }
 
 // at writes the exact fields at x, which must lie on the stretch, to f and
-// returns f; within the merge tolerance of an end, x counts as that end.
-func (p *stretchPolynomials) at(x float64, f *Fields) *Fields {
+// returns the sizes of the terms that make N and M there (see
+// Exact.actionMagnitudes): round-off in them is relative to these. Within
+// the merge tolerance of an end, x counts as that end.
+func (p *stretchPolynomials) at(x float64, f *Fields) (axialTerms, bendingTerms float64) {
 	t := min(max((x-p.start)*p.inverseLength, 0), 1)
 	if x-p.start <= p.tolerance {
 		t = 0
@@ -240,9 +289,7 @@ func (p *stretchPolynomials) at(x float64, f *Fields) *Fields {
 	f.AxialStress = f.AxialForce / p.area
 	f.BendingStress = f.BendingMoment * p.fibre / p.secondMoment
 	f.CombinedStress = extremeFibreStress(f.AxialStress, f.BendingStress)
-	p.axialTerms = nTerms + math.Abs(p.axialOffset)
-	p.bendingTerms = mTerms
-	return f
+	return nTerms + math.Abs(p.axialOffset), mTerms
 }
 
 // relativeError is err/exact, unless exact is negligible against
