@@ -149,11 +149,10 @@ type peak struct{ value, x float64 }
 // are read once per point and every check that covers the point takes its
 // value there.
 type probe struct {
-	model    *fem.Model
-	solution *fem.Solution
-	exact    *fem.Exact // nil when not available
-	parts    []stretch  // spans and overhangs, for deflection
-	columns  []column   // parts checked for buckling
+	model   *fem.Model
+	exact   *fem.Exact // nil when not available
+	parts   []stretch  // spans and overhangs, for deflection
+	columns []column   // parts checked for buckling
 	// stress holds per segment the combined stress of largest magnitude
 	// (signed), from whichever solution is larger there.
 	stress []peak
@@ -169,7 +168,7 @@ type probe struct {
 
 // read walks the points of s (and e) once for every check.
 func read(m *fem.Model, s *fem.Solution, e *fem.Exact) probe {
-	p := probe{model: m, solution: s, exact: e, parts: stretches(m), columns: columns(m)}
+	p := probe{model: m, exact: e, parts: stretches(m), columns: columns(m)}
 	els := s.Mesh.Elements
 	p.stress = make([]peak, len(m.Segments))
 	for i, seg := range m.Segments {
