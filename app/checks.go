@@ -9,6 +9,8 @@ import (
 
 	"fyne.io/fyne/v2/widget"
 
+	"stave/canvas"
+
 	"stave/fem"
 	"stave/fem/check"
 	"stave/fem/material"
@@ -22,6 +24,8 @@ type checkRow struct {
 	message    string // the full explanation
 	importance widget.Importance
 	span       [2]float64 // place on the member to highlight, m; {0, 0} for none
+	at         float64    // the point the check names, m, when marked
+	marked     bool       // draw a marker at at
 	failing    bool       // makes the drawing mark results as unreliable
 }
 
@@ -67,7 +71,7 @@ func checkRows(a *analysis) []checkRow {
 
 // statusRows says how each check status is shown.
 var statusRows = map[check.Status]checkRow{
-	check.Fail: {status: "FAIL", importance: widget.DangerImportance, failing: true},
+	check.Fail: {status: "FAIL", importance: widget.DangerImportance},
 	check.Warn: {status: "caution", importance: widget.WarningImportance},
 	check.Info: {status: "note", importance: widget.MediumImportance},
 	check.Pass: {status: "ok", importance: widget.SuccessImportance},
@@ -81,6 +85,10 @@ func designRows(a *analysis) []checkRow {
 	for i, r := range results {
 		row := statusRows[r.Status]
 		row.name, row.message = r.Name, r.Message
+		// A member too weak for its limits is a finding; an answer that fails
+		// its own verification is not to be trusted.
+		row.failing = r.Status == check.Fail && r.Kind == check.Verification
+		row.at, row.marked = r.X, r.X != 0 && r.Status >= check.Warn
 		row.span = r.Span
 		if row.span == [2]float64{} && r.X != 0 {
 			// A point: mark a short stretch around it so it shows.
@@ -90,6 +98,17 @@ func designRows(a *analysis) []checkRow {
 		rows[i] = row
 	}
 	return rows
+}
+
+// marks are the drawing's markers for the rows that name a point and need a look.
+func marks(rows []checkRow) []canvas.Mark {
+	var out []canvas.Mark
+	for i, r := range rows {
+		if r.marked {
+			out = append(out, canvas.Mark{X: r.at, Index: i, Severe: r.importance == widget.DangerImportance})
+		}
+	}
+	return out
 }
 
 // unreliable reports whether any row should mark the results as doubtful.

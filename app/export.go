@@ -104,6 +104,7 @@ func resultInput(p *storage.Project, a *analysis, rows []checkRow, layers canvas
 		in.Solution, in.Exact = a.solution, a.exact
 		in.Problem = a.problem()
 		in.Unreliable = unreliable(rows)
+		in.Marks = marks(rows)
 	}
 	return in
 }

@@ -187,3 +187,42 @@ func TestStartWithoutFileOpensTheDemo(t *testing.T) {
 		t.Errorf("started on %+v, want the demo %+v", o.project.Notes, want.Notes)
 	}
 }
+
+// TestDesignFailureIsNotUnreliable: a member too weak for its allowable stress
+// fails a design check, which is marked on the drawing, but the numbers
+// themselves are sound and must not be flagged as unreliable; clicking the
+// marker selects the check.
+func TestDesignFailureIsNotUnreliable(t *testing.T) {
+	p := &storage.Project{View: storage.DefaultView(), Model: newMember(4)}
+	p.Model.Segments[0].Material.Allowable = 1e3 // 1 kPa: any load fails it
+	p.Model.Supports = []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}}
+	p.Model.PointLoads = []fem.PointLoad{{X: 2, Transverse: -1e4}}
+	w, q := newTestWindow(t, p)
+	solved(t, w, q)
+	failed := -1
+	for i, r := range w.checks {
+		if r.status == "FAIL" && strings.HasPrefix(r.name, "Stress") {
+			failed = i
+		}
+	}
+	if failed < 0 {
+		t.Fatalf("no failed stress check: %+v", w.checks)
+	}
+	in := w.sceneInput()
+	if in.Unreliable {
+		t.Error("a failed design check marks the results unreliable")
+	}
+	var mark *canvas.Mark
+	for i := range in.Marks {
+		if in.Marks[i].Index == failed {
+			mark = &in.Marks[i]
+		}
+	}
+	if mark == nil || !mark.Severe {
+		t.Fatalf("failed stress check has no severe marker: %+v", in.Marks)
+	}
+	w.selectItem(canvas.Ref{Kind: canvas.CheckMark, Index: failed})
+	if w.sceneInput().Highlight != w.checks[failed].span {
+		t.Errorf("clicking the marker highlights %v, want the check's place %v", w.sceneInput().Highlight, w.checks[failed].span)
+	}
+}

@@ -250,6 +250,9 @@ func (w *Window) keepSelectionValid() {
 
 func (w *Window) selectItem(r canvas.Ref) {
 	if r.Kind == canvas.CheckMark {
+		if r.Index >= 0 && r.Index < len(w.checks) {
+			w.ui.checkList.Select(r.Index) // shows the check and highlights its place
+		}
 		return
 	}
 	w.selected = r

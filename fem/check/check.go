@@ -51,9 +51,25 @@ func nameOf(names []string, i int) string {
 	return names[i]
 }
 
+// Kind says what a check judges.
+type Kind int
+
+// Kinds of check.
+const (
+	// Design checks judge the member against a limit: stress, deflection,
+	// buckling. Failing one says the member is too weak, not that the
+	// numbers are wrong.
+	Design Kind = iota
+	// Verification checks judge the answer itself: equilibrium, the error
+	// against the exact solution, the handbook cross-check. Failing one
+	// means the results should not be trusted as they stand.
+	Verification
+)
+
 // Result is one check.
 type Result struct {
 	Name    string
+	Kind    Kind
 	Status  Status
 	Message string  // what it means and what to look at, for someone new to the trade
 	X       float64 // where to look, m

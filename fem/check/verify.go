@@ -32,7 +32,7 @@ func equilibriumChecks(m *fem.Model, s *fem.Solution, o Options) []Result {
 	}
 	var out []Result
 	for i, d := range directions {
-		r := Result{Name: "Equilibrium, " + d.name, Value: eq.Applied[i], Limit: -eq.Reactions[i], Span: [2]float64{0, m.Length()}}
+		r := Result{Name: "Equilibrium, " + d.name, Kind: Verification, Value: eq.Applied[i], Limit: -eq.Reactions[i], Span: [2]float64{0, m.Length()}}
 		residual := eq.Applied[i] + eq.Reactions[i]
 		r.Status = Pass
 		if math.Abs(residual) > equilibriumTolerance*d.scale {
@@ -52,7 +52,7 @@ func equilibriumChecks(m *fem.Model, s *fem.Solution, o Options) []Result {
 
 // exactCheck measures the finite element error against the exact solution.
 func exactCheck(p probe, o Options) Result {
-	r := Result{Name: "Error against the exact solution", Limit: o.ErrorLimit, Span: [2]float64{0, p.model.Length()}}
+	r := Result{Name: "Error against the exact solution", Kind: Verification, Limit: o.ErrorLimit, Span: [2]float64{0, p.model.Length()}}
 	if p.exact == nil {
 		r.Status = Info
 		r.Message = "No exact solution is available for this model, so the finite element error is not measured: compare a finer mesh instead."
@@ -83,7 +83,7 @@ func handbookCheck(m *fem.Model, s *fem.Solution, o Options) []Result {
 	}
 	var out []Result
 	for _, q := range c.Quantities {
-		r := Result{Name: "Handbook: " + q.Name, X: q.X, Limit: q.Value, Span: [2]float64{0, m.Length()}}
+		r := Result{Name: "Handbook: " + q.Name, Kind: Verification, X: q.X, Limit: q.Value, Span: [2]float64{0, m.Length()}}
 		v, found := q.Read(s, s.Reactions)
 		if !found {
 			continue
