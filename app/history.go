@@ -30,24 +30,19 @@ func (h *history) push(e edit) {
 }
 
 // undo takes the newest edit off the stack; the caller restores e.before.
-func (h *history) undo() (edit, bool) {
-	if len(h.done) == 0 {
-		return edit{}, false
-	}
-	e := h.done[len(h.done)-1]
-	h.done = h.done[:len(h.done)-1]
-	h.undone = append(h.undone, e)
-	return e, true
-}
+func (h *history) undo() (edit, bool) { return shift(&h.done, &h.undone) }
 
 // redo takes back the newest undone edit; the caller restores e.after.
-func (h *history) redo() (edit, bool) {
-	if len(h.undone) == 0 {
+func (h *history) redo() (edit, bool) { return shift(&h.undone, &h.done) }
+
+// shift moves the newest edit of from onto to.
+func shift(from, to *[]edit) (edit, bool) {
+	if len(*from) == 0 {
 		return edit{}, false
 	}
-	e := h.undone[len(h.undone)-1]
-	h.undone = h.undone[:len(h.undone)-1]
-	h.done = append(h.done, e)
+	e := (*from)[len(*from)-1]
+	*from = (*from)[:len(*from)-1]
+	*to = append(*to, e)
 	return e, true
 }
 

@@ -134,6 +134,10 @@ func meshOn(m *Model, x []float64) Mesh {
 	return Mesh{X: x, Elements: els}
 }
 
+// NodeNearest returns the index in m.X of the node closest to x, m: the node
+// a support, point load or load break at x sits on.
+func (m Mesh) NodeNearest(x float64) int { return nearest(m.X, x) }
+
 // nearest returns the index of the value of sorted xs closest to x.
 func nearest(xs []float64, x float64) int {
 	i := sort.SearchFloat64s(xs, x)

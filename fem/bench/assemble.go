@@ -2,7 +2,6 @@ package bench
 
 import (
 	"fmt"
-	"sort"
 
 	"stave/fem"
 )
@@ -81,14 +80,14 @@ func Assemble(m *fem.Model, mesh fem.Mesh, p Problem) (*System, error) {
 		}
 	}
 	for _, pl := range m.PointLoads {
-		node := nearest(mesh.X, pl.X)
+		node := mesh.NodeNearest(pl.X)
 		for mi, d := range p.motions() {
 			b[per*node+mi] += [3]float64{pl.Axial, pl.Transverse, pl.Moment}[d]
 		}
 	}
 	var fixed []int
 	for _, s := range m.Supports {
-		node := nearest(mesh.X, s.X)
+		node := mesh.NodeNearest(s.X)
 		for mi, d := range p.motions() {
 			dof := per*node + mi
 			switch {
@@ -129,7 +128,7 @@ func elementLoads(m *fem.Model, mesh fem.Mesh, p Problem) [][2]float64 {
 		for k := 1; k < len(d.Points); k++ {
 			lo, hi := d.Points[k-1], d.Points[k]
 			slope := (hi.Intensity - lo.Intensity) / (hi.X - lo.X)
-			for e := nearest(mesh.X, lo.X); e < nearest(mesh.X, hi.X); e++ {
+			for e := mesh.NodeNearest(lo.X); e < mesh.NodeNearest(hi.X); e++ {
 				loads[e][0] += lo.Intensity + slope*(mesh.X[e]-lo.X)
 				loads[e][1] += lo.Intensity + slope*(mesh.X[e+1]-lo.X)
 			}
@@ -166,16 +165,4 @@ func beamElement(seg fem.Segment, h float64, q [2]float64) ([4][4]float64, [4]fl
 			h * (3*q[0] + 7*q[1]) / 20,
 			-h * h * (2*q[0] + 3*q[1]) / 60,
 		}
-}
-
-// nearest returns the index of the value of sorted xs closest to x.
-func nearest(xs []float64, x float64) int {
-	i := sort.SearchFloat64s(xs, x)
-	switch {
-	case i == len(xs):
-		return i - 1
-	case i > 0 && x-xs[i-1] < xs[i]-x:
-		return i - 1
-	}
-	return i
 }
