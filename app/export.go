@@ -167,19 +167,7 @@ func (o ExportOptions) withDefaults() (ExportOptions, error) {
 // writeDrawing draws in with the chosen panels fitted to the page, without
 // the selection, the mouse position or a highlighted check.
 func writeDrawing(w io.Writer, format string, in canvas.Input, panels canvas.ExportPanels, opts ExportOptions) error {
-	in.Layers.Deformed, in.Layers.AxialForce, in.Layers.ShearForce, in.Layers.BendingMoment, in.Layers.Stress =
-		panels.Deformed, panels.AxialForce, panels.ShearForce, panels.BendingMoment, panels.Stress
-	in.Selected, in.Hovering, in.Highlight = canvas.Ref{}, false, [2]float64{}
-	v := canvas.NewView(opts.Width, opts.Height)
-	v.Fit(in.Model)
-	scene := canvas.Build(in, v)
-	switch format {
-	case "png":
-		return canvas.WritePNG(w, scene, opts.DPI/72)
-	case "svg":
-		return canvas.WriteSVG(w, scene)
-	}
-	return canvas.WritePDF(w, scene)
+	return canvas.WriteImage(w, format, in, panels, opts.Width, opts.Height, opts.DPI/72)
 }
 
 // panelsFrom are the diagrams switched on in l.

@@ -18,7 +18,7 @@ import (
 )
 
 // caution is shown in the status line at all times.
-const caution = "Results are an aid for checking only — a qualified engineer must review them; local codes and licensed practice govern."
+const caution = fem.Caution
 
 // Window is one sketch-and-solve window on one project.
 type Window struct {

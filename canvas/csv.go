@@ -27,10 +27,20 @@ var csvColumns = []struct {
 	{"sigma_combined", units.Stress, func(f fem.Fields) float64 { return f.CombinedStress }},
 }
 
+// csvPreamble opens every results table: comment lines (read with
+// csv.Reader.Comment = '#') with the caution and the sign conventions, since
+// a table travels without the window around it.
+var csvPreamble = []string{
+	"# Stave results. " + Caution,
+	"# Signs: x along the member; u along +x; w up; theta and moments counter-clockwise;",
+	"# N tension positive; M sagging positive (M = EI w''); V = dM/dx; stresses tension positive, bending in the bottom fibre.",
+}
+
 // WriteCSV writes x and every result quantity, finite element and (when e is
 // not nil) exact, at perElement+1 points in each element, both ends included,
-// in the display units of u named in the header. An element's start is read
-// from the right and its end from the left, so jumps show as two rows at one x.
+// in the display units of u named in the header, after a preamble of comment
+// lines. An element's start is read from the right and its end from the left,
+// so jumps show as two rows at one x.
 func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perElement int) error {
 	if s == nil {
 		return fmt.Errorf("canvas: there are no results to write: solve the model first")
@@ -40,6 +50,11 @@ func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perEle
 	}
 	if u.Name == "" {
 		u = units.SI
+	}
+	for _, line := range csvPreamble {
+		if _, err := fmt.Fprintln(w, line); err != nil {
+			return err
+		}
 	}
 	cw := csv.NewWriter(w)
 	header := []string{fmt.Sprintf("x [%s]", u.Unit(units.Position).Symbol)}

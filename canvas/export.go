@@ -34,16 +34,27 @@ func (p ExportPanels) count() int {
 	return n
 }
 
+// footerHeight is the band under an exported drawing that carries the caution.
+const footerHeight = 18
+
 // WriteImage draws in with the chosen panels, fitted to width × height
-// pixels (points for vector formats), as "png", "svg" or "pdf". The hover
-// cursor is left out; the selection and highlight are kept.
-func WriteImage(w io.Writer, format string, in Input, panels ExportPanels, width, height float32) error {
+// points, as "png" (scale pixels per point), "svg" or "pdf", with the caution
+// in a footer: an exported drawing travels without the window around it.
+// The hover cursor, the selection and the highlight are left out.
+func WriteImage(w io.Writer, format string, in Input, panels ExportPanels, width, height float32, scale float64) error {
 	if in.Model == nil {
 		return fmt.Errorf("canvas: there is no model to export")
 	}
+	if height <= footerHeight {
+		return fmt.Errorf("canvas: an exported drawing must be taller than %d points, got %g", footerHeight, height)
+	}
 	in.Layers = panels.layers(in.Layers)
-	in.Hovering = false
-	v := NewView(width, height)
+	in.Selected, in.Hovering, in.Highlight = Ref{}, false, [2]float64{}
+	v := NewView(width, height-footerHeight)
 	v.Fit(in.Model)
-	return writeScene(w, Build(in, v), format, 1)
+	s := Build(in, v)
+	s.Height = height
+	s.Items = append(s.Items, Item{Kind: Text, Text: Caution, At: Point{8, height - footerHeight + 4},
+		Size: smallSize, Stroke: dimensionColour, Width: textWidth(Caution, smallSize, false)})
+	return writeScene(w, s, format, scale)
 }

@@ -6,6 +6,7 @@ import (
 	"image/png"
 	"math"
 	"strconv"
+	"strings"
 	"testing"
 
 	"stave/fem"
@@ -20,7 +21,12 @@ func TestWriteCSVMatchesSolution(t *testing.T) {
 		if err := WriteCSV(&buf, in.Solution, in.Exact, u, 3); err != nil {
 			t.Fatal(err)
 		}
-		records, err := csv.NewReader(&buf).ReadAll()
+		if !strings.HasPrefix(buf.String(), "# Stave results. "+Caution) {
+			t.Errorf("%s: the CSV does not open with the caution", u.Name)
+		}
+		r := csv.NewReader(&buf)
+		r.Comment = '#'
+		records, err := r.ReadAll()
 		if err != nil {
 			t.Fatalf("%s: the CSV does not parse: %v", u.Name, err)
 		}
@@ -152,7 +158,7 @@ func TestConvergenceChart(t *testing.T) {
 func TestWriteImage(t *testing.T) {
 	in := solved(t, demoModel(10))
 	var buf bytes.Buffer
-	if err := WriteImage(&buf, "png", in, ExportPanels{BendingMoment: true}, 640, 480); err != nil {
+	if err := WriteImage(&buf, "png", in, ExportPanels{BendingMoment: true}, 640, 480, 1); err != nil {
 		t.Fatal(err)
 	}
 	img, err := png.Decode(&buf)
@@ -162,7 +168,14 @@ func TestWriteImage(t *testing.T) {
 	if b := img.Bounds(); b.Dx() != 640 || b.Dy() != 480 {
 		t.Errorf("image is %d × %d, want 640 × 480", b.Dx(), b.Dy())
 	}
-	if err := WriteImage(&buf, "bmp", in, ExportPanels{}, 640, 480); err == nil {
+	if err := WriteImage(&buf, "bmp", in, ExportPanels{}, 640, 480, 1); err == nil {
 		t.Error("an unknown image format was accepted")
+	}
+	buf.Reset()
+	if err := WriteImage(&buf, "svg", in, ExportPanels{BendingMoment: true}, 640, 480, 1); err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(buf.String(), "qualified engineer must review") {
+		t.Error("the exported drawing carries no caution")
 	}
 }

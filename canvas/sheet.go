@@ -10,8 +10,8 @@ import (
 	"stave/fem/units"
 )
 
-// Caution is printed on every calculation sheet.
-const Caution = "Results are an aid for checking only. A qualified engineer must review them; local codes and licensed practice govern."
+// Caution is printed on every calculation sheet and exported drawing.
+const Caution = fem.Caution
 
 // SheetNotes fill the title block of a calculation sheet.
 type SheetNotes struct {

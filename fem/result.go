@@ -1,5 +1,8 @@
 package fem
 
+// Caution goes with every result Stave shows, prints or writes.
+const Caution = "Results are an aid for checking only. A qualified engineer must review them; local codes and licensed practice govern."
+
 // Side picks the limit at a point where a field jumps (under a point load, at
 // a support, at a change of section).
 type Side int

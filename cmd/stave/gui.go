@@ -5,6 +5,5 @@ import "stave/app"
 // openWindow opens the sketch-and-solve window on path, or on the demo model
 // when path is empty, and returns when the window closes.
 func openWindow(path string) error {
-	app.Version = version
 	return app.Run(path)
 }

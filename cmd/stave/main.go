@@ -18,13 +18,16 @@ import (
 	"fmt"
 	"io"
 	"os"
+
+	"stave/app"
+	"stave/fem"
 )
 
 // version is the Stave release; it also appears on calculation sheets.
 const version = "0.1.0"
 
 // caution goes with every printed result.
-const caution = "Results are an aid for checking only. A qualified engineer must review them; local codes and licensed practice govern."
+const caution = fem.Caution
 
 // usageError marks misuse of the command line (exit status 2).
 type usageError struct{ msg string }
@@ -47,6 +50,7 @@ const usage = `usage:
 `
 
 func main() {
+	app.Version = version // calculation sheets name the version, from the window or the command line
 	os.Exit(run(os.Args[1:], os.Stdout, os.Stderr))
 }
 

@@ -169,7 +169,7 @@ func TestExportWritesEachFormat(t *testing.T) {
 		{"beam.pdf", nil, "%PDF"},
 		{"sheet.pdf", []string{"--sheet"}, "%PDF"},
 		{"sheet.png", []string{"--sheet"}, "\x89PNG"},
-		{"fields.csv", nil, "x ["},
+		{"fields.csv", nil, "# Stave results."},
 	}
 	for _, c := range cases {
 		t.Run(c.out, func(t *testing.T) {

@@ -23,8 +23,8 @@ import (
 	"stave/fem/units"
 )
 
-// Caution accompanies every result.
-const Caution = "Stave's results are an aid for checking only. A qualified engineer must review them; local codes and licensed practice govern."
+// Caution accompanies every result: the project's one caution.
+const Caution = fem.Caution
 
 // Status grades a result.
 type Status int
