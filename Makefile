@@ -8,6 +8,8 @@ SHELL := /bin/bash
 GO ?= go
 BIN := ./stave
 export LANG ?= C.UTF-8
+# Fyne cannot parse the plain C locale as a language and logs an error for it; Stave's text is English.
+export LANGUAGE ?= en
 export PATH := $(PATH):/usr/local/go/bin
 
 # Debian/Ubuntu packages: a C compiler and the OpenGL/X11 headers for Fyne's GLFW driver,

@@ -29,7 +29,7 @@ kill "$pid"
 wait "$pid" 2>/dev/null || true
 INNER
 chmod +x "$work/shot.sh"
-LANG=C.UTF-8 xvfb-run -a -s "-screen 0 1280x800x24" "$work/shot.sh" "$bin" testdata/demo.json "$work"
+LANG=C.UTF-8 LANGUAGE=en xvfb-run -a -s "-screen 0 1280x800x24" "$work/shot.sh" "$bin" testdata/demo.json "$work"
 
 # A blank or single-colour screen has a standard deviation near 0 and a
 # handful of colours; the window with its drawing has thousands.

@@ -19,7 +19,7 @@ import (
 
 // checkRow is one line of the checks list.
 type checkRow struct {
-	status     string // short word in front: "FAIL", "caution", "ok", "note"
+	status     string // short word in front: "FAIL", "caution", "ok", "within limit", "note"
 	name       string // what was checked, one line
 	message    string // the full explanation
 	importance widget.Importance
@@ -88,6 +88,9 @@ func designRows(a *analysis) []checkRow {
 		// A member too weak for its limits is a finding; an answer that fails
 		// its own verification is not to be trusted.
 		row.failing = r.Status == check.Fail && r.Kind == check.Verification
+		if r.Status == check.Pass && r.Kind == check.Design {
+			row.status = "within limit" // a finding about the member, never an approval
+		}
 		row.at, row.marked = r.X, r.X != 0 && r.Status >= check.Warn
 		row.span = r.Span
 		if row.span == [2]float64{} && r.X != 0 {

@@ -37,6 +37,10 @@ func stressChecks(p probe, o Options) []Result {
 		if r.Status == Fail {
 			r.Message += "Above 1 the member is overstressed: a larger section, a stronger material, or less load is needed. "
 		}
+		if o.SafetyFactor == 1 {
+			r.Message += "With a safety factor of 1 there is no margin in this check: the value entered must already be an allowable (design) stress, not a yield or characteristic strength. "
+		}
+		r.Message += "The stress is compared by magnitude, tension and compression alike: materials weak in tension, such as concrete, need their own check. "
 		r.Message += "This is elastic stress only: local buckling, lateral-torsional buckling, shear, connections and fatigue are not checked."
 		out = append(out, r)
 	}
@@ -122,7 +126,7 @@ func deflectionChecks(p probe, o Options) []Result {
 		if r.Value > r.Limit {
 			r.Status = Fail
 		}
-		r.Message = fmt.Sprintf("The largest deflection in this %s is %s at x = %s, measured from the line through the supports (settlement not counted), from %s. The limit %s/%g = %s is a user choice (common practice: span/360 for floors, /240 for roofs, length/180 for cantilevers).",
+		r.Message = fmt.Sprintf("The largest deflection in this %s is %s at x = %s, measured from the line through the supports (settlement not counted), from %s. The limit %s/%g = %s is a user choice (common practice: span/360 for floors under live load, /240 under total load, length/180 for cantilevers). This deflection comes from every load in the model, self-weight included: compare it with a total-load limit, or model the live load alone for a live-load limit.",
 			kind, o.Units.Format(units.Deflection, r.Value), o.Units.Format(units.Position, r.X), p.fromWhat(),
 			kind, n, o.Units.Format(units.Deflection, r.Limit))
 		if st.overhangs {
