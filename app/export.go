@@ -90,6 +90,7 @@ func exportKindList() string {
 type exportSource struct {
 	project  *storage.Project
 	analysis *analysis
+	pending  *request // the analysis still to run when analysis is nil (see finish)
 	rows     []checkRow
 	layers   canvas.Layers
 	units    units.System

@@ -174,8 +174,9 @@ func (w *Window) typedRune(r rune) {
 // goroutine, and falls back to Fyne's own dialog when there is none (no GTK
 // or no display). done runs on the UI goroutine with the chosen path.
 func (w *Window) chooseFile(save bool, title, filterName, ext string, done func(path string)) {
+	current := w.path // read here: the goroutine must not touch the window's state
 	go func() {
-		path, err := nativeFile(save, title, filterName, ext, w.path)
+		path, err := nativeFile(save, title, filterName, ext, current)
 		w.post(func() {
 			switch {
 			case err == nil:
@@ -449,16 +450,30 @@ func (w *Window) exportMenu() *fyne.Menu {
 	return m
 }
 
-// exportSource is the window's project and its complete analysis: the one
-// shown when it is current and complete, otherwise solved now, so an export
-// never waits for the background solver nor shows a stale result.
+// exportSource is a copy of the window's project with its complete
+// analysis: the one shown when it is current and complete, otherwise solved
+// now, so an export never waits for the background solver nor shows a stale
+// result. Call it on the UI goroutine; the returned source's finish may run
+// on any goroutine.
 func (w *Window) exportSource() exportSource {
-	a := w.result
-	if a == nil || a.seq != w.pending || !a.complete {
-		full := analyse(request{model: cloneModel(w.project.Model), nodes: w.adaptNodes, opts: w.checkOptions()})
-		a = &full
+	p := cloneProject(w.project)
+	src := exportSource{project: &p, layers: w.layers, units: w.units}
+	if a := w.result; a != nil && a.seq == w.pending && a.complete {
+		src.analysis = a
+	} else {
+		src.pending = &request{model: cloneModel(w.project.Model), nodes: append([]float64(nil), w.adaptNodes...), opts: w.checkOptions()}
 	}
-	return exportSource{project: &w.project, analysis: a, rows: checkRows(a), layers: w.layers, units: w.units}
+	return src
+}
+
+// finish solves the source's model if the window had no complete analysis of it.
+func (s exportSource) finish() exportSource {
+	if s.analysis == nil {
+		full := analyse(*s.pending)
+		s.analysis = &full
+	}
+	s.rows = checkRows(s.analysis)
+	return s
 }
 
 // export writes one of the exportKinds to a file the user chooses.
@@ -469,13 +484,23 @@ func (w *Window) export(kind string) {
 		return
 	}
 	w.chooseFile(true, "Export", strings.ToUpper(ext)+" file", ext, func(path string) {
-		w.exportTo(path, func(f io.Writer) error { return writeExport(f, w.exportSource(), kind, ExportOptions{}) })
+		src := w.exportSource()
+		w.setStatus("exporting %s…", path)
+		go func() { // solving and drawing a fine mesh takes time: not on the UI goroutine
+			err := writeFile(path, func(f io.Writer) error { return writeExport(f, src.finish(), kind, ExportOptions{}) })
+			w.post(func() { w.exported(path, err) })
+		}()
 	})
 }
 
 // exportTo writes a file with write and reports the outcome.
 func (w *Window) exportTo(path string, write func(io.Writer) error) {
-	if err := writeFile(path, write); err != nil {
+	w.exported(path, writeFile(path, write))
+}
+
+// exported reports the outcome of an export.
+func (w *Window) exported(path string, err error) {
+	if err != nil {
 		dialog.ShowError(err, w.win)
 		return
 	}

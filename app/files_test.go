@@ -61,7 +61,7 @@ func TestExports(t *testing.T) {
 			t.Errorf("Export %s starts with %q, want %q", k.kind, buf.Bytes()[:min(buf.Len(), 8)], starts[k.kind])
 		}
 		path := filepath.Join(dir, k.kind+"."+k.ext)
-		if err := writeFile(path, func(f io.Writer) error { return writeExport(f, w.exportSource(), k.kind, ExportOptions{}) }); err != nil {
+		if err := writeFile(path, func(f io.Writer) error { return writeExport(f, w.exportSource().finish(), k.kind, ExportOptions{}) }); err != nil {
 			t.Errorf("window export %s: %v", k.kind, err)
 			continue
 		}
