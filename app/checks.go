@@ -91,7 +91,8 @@ func designRows(a *analysis) []checkRow {
 		if r.Status == check.Pass && r.Kind == check.Design {
 			row.status = "within limit" // a finding about the member, never an approval
 		}
-		row.at, row.marked = r.X, r.X != 0 && r.Status >= check.Warn
+		// Design checks always name their worst place (x = 0 at a fixed end included).
+		row.at, row.marked = r.X, r.Kind == check.Design && r.Status >= check.Warn
 		row.span = r.Span
 		if row.span == [2]float64{} && r.X != 0 {
 			// A point: mark a short stretch around it so it shows.
