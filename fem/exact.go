@@ -356,21 +356,6 @@ func (e *Exact) At(x float64, side Side) Fields {
 	return f
 }
 
-// actionMagnitudes returns, at x, the sizes of the terms whose sums make N
-// and M (Σ|term| rather than |Σ term|, the thermal term included): round-off
-// in N and M is relative to these, not to N and M, which may cancel to zero.
-func (e *Exact) actionMagnitudes(x float64, side Side) (axial, bending float64) {
-	if e == nil || len(e.stretches) == 0 {
-		return 0, 0
-	}
-	j, t := e.locate(x, side)
-	s := &e.stretches[j]
-	h := s.length
-	axial = s.bar.stiffness*derivativeMagnitude(s.bar.coeff, 1, t)/h + math.Abs(s.bar.offset)
-	bending = s.beam.stiffness * derivativeMagnitude(s.beam.coeff, 2, t) / (h * h)
-	return axial, bending
-}
-
 // extremeFibreStress is the extreme-fibre stress N/A ± M·c/I of larger magnitude.
 func extremeFibreStress(axial, bending float64) float64 {
 	bottom, top := axial+bending, axial-bending

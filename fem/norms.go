@@ -265,8 +265,8 @@ func newStretchPolynomials(s *exactStretch, tolerance float64) stretchPolynomial
 }
 
 // at writes the exact fields at x, which must lie on the stretch, to f and
-// returns the sizes of the terms that make N and M there (see
-// Exact.actionMagnitudes): round-off in them is relative to these. Within
+// returns the sizes of the terms that make N and M there (Σ|term|, not
+// |Σ term|, the thermal term included): round-off in them is relative to these. Within
 // the merge tolerance of an end, x counts as that end.
 func (p *stretchPolynomials) at(x float64, f *Fields) (axialTerms, bendingTerms float64) {
 	t := min(max((x-p.start)*p.inverseLength, 0), 1)

@@ -1,7 +1,5 @@
 package fem
 
-import "math"
-
 // derivativeAt evaluates the d-th derivative of the polynomial Σ c[k]·t^k at t.
 func derivativeAt(c []float64, d int, t float64) float64 {
 	sum := 0.0
@@ -30,14 +28,4 @@ func monomialDerivative(k, d int, t float64) float64 {
 		p *= t
 	}
 	return fallingFactorial(k, d) * p
-}
-
-// derivativeMagnitude is Σ |c[k]·(d-th derivative of t^k)| at t: the size of
-// the terms derivativeAt adds, hence the scale of its round-off.
-func derivativeMagnitude(c []float64, d int, t float64) float64 {
-	sum := 0.0
-	for k := d; k < len(c); k++ {
-		sum += math.Abs(c[k] * monomialDerivative(k, d, t))
-	}
-	return sum
 }
