@@ -255,27 +255,28 @@ func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, t
 	// The fields of the samples, kept in one place: passed by pointer to the
 	// quantities' readers they would otherwise move to the heap one by one.
 	start, end := new(fem.Fields), new(fem.Fields)
-	for _, e := range s.Mesh.Elements[from:to] {
+	for k, e := range s.Mesh.Elements[from:to] {
+		k += from
 		h := e.End - e.Start
 		inner := int(min(maxSamplesPerElement, h*v.Scale/3))
 		if inner > 0 {
 			for j := 0; j <= inner+1; j++ {
-				x, side := e.Start+h*float64(j)/float64(inner+1), fem.Right
+				x := e.Start + h*float64(j)/float64(inner+1)
 				if j == inner+1 {
-					x, side = e.End, fem.Left
+					x = e.End
 				}
-				*start = s.At(x, side)
+				*start = s.InElement(k, x)
 				add(x, start)
 			}
 			continue
 		}
 		if readStart {
-			*start = s.At(e.Start, fem.Right)
+			*start = s.InElement(k, e.Start)
 		} else {
 			*start = fem.Fields{Deflection: s.Displacement[e.First][fem.Transverse]}
 		}
 		if readEnd {
-			*end = s.At(e.End, fem.Left)
+			*end = s.InElement(k, e.End)
 		} else {
 			*end = fem.Fields{
 				Deflection:    s.Displacement[e.First+1][fem.Transverse],

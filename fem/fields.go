@@ -9,7 +9,7 @@ func (s *Solution) At(x float64, side Side) Fields {
 	if s == nil || len(s.fields) == 0 {
 		return Fields{X: x}
 	}
-	return s.inElement(s.elementAt(x, side), x)
+	return s.InElement(s.elementAt(x, side), x)
 }
 
 // elementAt finds the element holding x by binary search; positions within
@@ -48,18 +48,20 @@ func (s *Solution) Sample(n int) []Fields {
 			if j == n {
 				x = s.Mesh.X[e+1] // exactly the node, free of round-off
 			}
-			out = append(out, s.inElement(e, x))
+			out = append(out, s.InElement(e, x))
 		}
 	}
 	return out
 }
 
-// inElement evaluates the fields at x in element e. Displacements
-// interpolate the end values, so neighbouring elements agree at a node to
-// the bit; slopes, forces and moments come from the derivatives the
-// hierarchy carried down (hierarchy.go), free of the cancellation that
-// differencing nearly equal nodal values would bring on fine meshes.
-func (s *Solution) inElement(e int, x float64) Fields {
+// InElement evaluates the fields at x in element e of s.Mesh, x clamped to
+// the element; callers that walk the elements in order use it to skip the
+// search At makes for every point. Displacements interpolate the end values,
+// so neighbouring elements agree at a node to the bit; slopes, forces and
+// moments come from the derivatives the hierarchy carried down
+// (hierarchy.go), free of the cancellation that differencing nearly equal
+// nodal values would bring on fine meshes.
+func (s *Solution) InElement(e int, x float64) Fields {
 	el := s.Mesh.Elements[e]
 	sec := &s.sections[el.Segment]
 	h := el.End - el.Start

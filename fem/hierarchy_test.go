@@ -272,3 +272,47 @@ func TestReactionsNextToShortStretch(t *testing.T) {
 		}
 	}
 }
+
+// Meshes of parallelRefine elements or more are refined in jobs on two
+// goroutines; every nodal displacement and element field must equal, to the
+// bit, what one refiner walking each stretch from its key points gives, and
+// the strain energy (summed in two parts) must agree to round-off.
+func TestParallelRefineMatchesSequential(t *testing.T) {
+	m := mixedModel(3 * parallelRefine)
+	s := mustSolve(t, m)
+	keys, err := keyNodes(m, s.Mesh.X)
+	if err != nil {
+		t.Fatal(err)
+	}
+	keyX := make([]float64, len(keys))
+	for j, i := range keys {
+		keyX[j] = s.Mesh.X[i]
+	}
+	stretches, _ := elementTable(m, meshOn(m, keyX), s.Mesh.X)
+	if len(stretches) < 3 || len(s.Mesh.Elements) < parallelRefine {
+		t.Fatalf("%d stretches and %d elements: the test needs several stretches and a mesh refined in parallel", len(stretches), len(s.Mesh.Elements))
+	}
+	disp := make([][3]float64, len(s.Displacement))
+	for _, i := range keys {
+		disp[i] = s.Displacement[i]
+	}
+	fields := make([]elementField, len(s.Mesh.Elements))
+	r := stretchRefiner{x: s.Mesh.X, disp: disp, fields: fields, order: LinearBar}
+	for j := range stretches {
+		r.setup(&stretches[j])
+		r.split(keys[j], keys[j+1], r.startTaylor(&stretches[j], keys[j], keys[j+1]))
+	}
+	for i := range disp {
+		if disp[i] != s.Displacement[i] {
+			t.Fatalf("node %d: sequential %v, parallel %v", i, disp[i], s.Displacement[i])
+		}
+	}
+	for e := range fields {
+		if fields[e] != s.fields[e] {
+			t.Fatalf("element %d: sequential %+v, parallel %+v", e, fields[e], s.fields[e])
+		}
+	}
+	if relErr(0.5*r.energy, s.StrainEnergy) > 1e-13 {
+		t.Errorf("strain energy: sequential %.17g, parallel %.17g", 0.5*r.energy, s.StrainEnergy)
+	}
+}

@@ -82,7 +82,7 @@ func CompareVisiting(s *Solution, e *Exact, visit func(*ComparedPoint)) ErrorNor
 				p.Element = i
 				for k := 0; k <= ComparePoints; k++ {
 					p.X = comparePoint(el, k)
-					p.FE = s.inElement(i, p.X)
+					p.FE = s.InElement(i, p.X)
 					visit(&p)
 				}
 			}
@@ -140,7 +140,7 @@ func (c *comparison) maxima(visit func(*ComparedPoint)) errorMaxima {
 		p.Element = i
 		for k := 0; k <= ComparePoints; k++ {
 			x := comparePoint(el, k)
-			p.X, p.FE = x, c.solution.inElement(i, x)
+			p.X, p.FE = x, c.solution.InElement(i, x)
 			axialTerms, bendingTerms := ex.at(x, &p.Exact)
 			f, g := &p.FE, &p.Exact
 			out.deflection = math.Max(out.deflection, math.Abs(f.Deflection-g.Deflection))
@@ -191,7 +191,7 @@ func (c *comparison) integrals() errorIntegrals {
 		out.stressTermsFE = math.Max(out.stressTermsFE, na/sec.Area+ma*sec.FibreDistance/sec.SecondMoment)
 		for _, q := range gauss {
 			x, w := el.Start+h*q.xi, h*q.w
-			f := c.solution.inElement(i, x)
+			f := c.solution.InElement(i, x)
 			axialTerms, bendingTerms := ex.at(x, &g)
 			du, dw := f.AxialDisplacement-g.AxialDisplacement, f.Deflection-g.Deflection
 			dn, dm := f.AxialForce-g.AxialForce, f.BendingMoment-g.BendingMoment

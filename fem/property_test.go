@@ -688,6 +688,7 @@ func TestExtremeValidValuesNeverSilent(t *testing.T) {
 		{"E 1e300 Pa", func(m *fem.Model) { m.Segments[0].Material.Elastic = 1e300 }},
 		{"I 5e-324 m⁴", func(m *fem.Model) { m.Segments[0].Section.SecondMoment = math.SmallestNonzeroFloat64 }},
 		{"A 5e-324 m²", func(m *fem.Model) { m.Segments[0].Section.Area = math.SmallestNonzeroFloat64 }},
+		{"fibre distance 1e306 m", func(m *fem.Model) { m.Segments[0].Section.FibreDistance = 1e306 }},
 		{"temperature change 1e300 K", func(m *fem.Model) { m.TemperatureChange = 1e300 }},
 		{"density 1e300 kg/m³", func(m *fem.Model) { m.Segments[0].Material.Density = 1e300 }},
 		{"spring 5e-324 N/m", func(m *fem.Model) {

@@ -102,7 +102,7 @@ func extremes(s *Solution) []Extreme {
 			if j == perElement {
 				x = s.Mesh.X[e+1]
 			}
-			f := s.inElement(e, x)
+			f := s.InElement(e, x)
 			for i, q := range summaryQuantities {
 				v := q.get(f)
 				if v > out[i].Max {
