@@ -205,7 +205,7 @@ func sampleCurves(s *fem.Solution, v View, qs []quantity, cs, half []*curve) {
 	first := sort.Search(len(els), func(k int) bool { return els[k].End >= lo })
 	end := first + sort.Search(len(els)-first, func(k int) bool { return els[first+k].Start > hi })
 	if end-first < parallelElements {
-		sampleElements(s, v, qs, cs, first, end)
+		sampleElements(s, v, qs, cs, first, end, end)
 	} else {
 		mid := (first + end) / 2
 		second := half[:len(cs)]
@@ -214,10 +214,10 @@ func sampleCurves(s *fem.Solution, v View, qs []quantity, cs, half []*curve) {
 		}
 		done := make(chan struct{})
 		go func() {
-			sampleElements(s, v, qs, second, mid, end)
+			sampleElements(s, v, qs, second, mid, end, end)
 			close(done)
 		}()
-		sampleElements(s, v, qs, cs, first, mid)
+		sampleElements(s, v, qs, cs, first, mid, end)
 		<-done
 		for i, c := range cs {
 			c.merge(second[i])
@@ -233,8 +233,9 @@ func sampleCurves(s *fem.Solution, v View, qs []quantity, cs, half []*curve) {
 // saves (a few microseconds against about 0.1 µs per element).
 const parallelElements = 4096
 
-// sampleElements adds the samples of elements from ≤ i < to to cs.
-func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, to int) {
+// sampleElements adds the samples of elements from ≤ i < to to cs; the
+// visible elements end before element visible.
+func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, to, visible int) {
 	add := func(x float64, f *fem.Fields) {
 		k := cs[0].column(x)
 		for i, q := range qs {
@@ -289,7 +290,17 @@ func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, t
 			}
 		}
 		add(e.Start, start)
-		add(e.End, end)
+		// The end repeats the next element's start for a nodal quantity and,
+		// below a pixel, the start's value for a constant one (a jump at
+		// the node then shows within the pixel column, as it would anyway).
+		last, subPixel := k == visible-1, h*v.Scale < 1
+		kEnd := cs[0].column(e.End)
+		for i, q := range qs {
+			if q.within == nodal && !last || q.within == constant && subPixel {
+				continue
+			}
+			cs[i].addTo(kEnd, e.End, q.get(end))
+		}
 	}
 }
 

@@ -9,8 +9,10 @@ import (
 )
 
 // sampledByAt is how the curves were read before sampleCurves took a narrow
-// element's end from its start: every sample through Solution.At, the end of
-// each element included, one after the other.
+// element's end from its start: every sample through Solution.At, one after
+// the other, each element's end included but where sampleElements leaves it
+// out as a repeat (a nodal quantity's end before the next element, a constant
+// quantity's end in an element narrower than a pixel).
 func sampledByAt(s *fem.Solution, v View, qs []quantity) []*curve {
 	cs := make([]*curve, len(qs))
 	for i := range cs {
@@ -18,10 +20,13 @@ func sampledByAt(s *fem.Solution, v View, qs []quantity) []*curve {
 		cs[i].reset(v)
 	}
 	lo, hi := v.ToModelX(-1), v.ToModelX(v.Width+1)
+	var visible []fem.Element
 	for _, e := range s.Mesh.Elements {
-		if e.End < lo || e.Start > hi {
-			continue
+		if e.End >= lo && e.Start <= hi {
+			visible = append(visible, e)
 		}
+	}
+	for n, e := range visible {
 		inner := int(min(maxSamplesPerElement, (e.End-e.Start)*v.Scale/3))
 		for j := 0; j <= inner+1; j++ {
 			x, side := e.Start+(e.End-e.Start)*float64(j)/float64(inner+1), fem.Right
@@ -30,7 +35,11 @@ func sampledByAt(s *fem.Solution, v View, qs []quantity) []*curve {
 			}
 			f := s.At(x, side)
 			for i, q := range qs {
-				cs[i].add(x, q.get(&f))
+				repeat := inner == 0 && j == 1 && (q.within == nodal && n < len(visible)-1 ||
+					q.within == constant && (e.End-e.Start)*v.Scale < 1)
+				if !repeat {
+					cs[i].add(x, q.get(&f))
+				}
 			}
 		}
 	}

@@ -53,12 +53,19 @@ func barShape(order ElementOrder, xi, h float64) (n, dn [3]float64) {
 // ξ ∈ [0, 1] for an element of length h, with their first, second and third
 // x-derivatives.
 func hermite(xi, h float64) (n, d1, d2, d3 [4]float64) {
-	x2, x3 := xi*xi, xi*xi*xi
-	n = [4]float64{1 - 3*x2 + 2*x3, h * (xi - 2*x2 + x3), 3*x2 - 2*x3, h * (x3 - x2)}
+	x2 := xi * xi
+	n = hermiteValues(xi, h)
 	d1 = [4]float64{(6*x2 - 6*xi) / h, 1 - 4*xi + 3*x2, (6*xi - 6*x2) / h, 3*x2 - 2*xi}
 	d2 = [4]float64{(12*xi - 6) / (h * h), (6*xi - 4) / h, (6 - 12*xi) / (h * h), (6*xi - 2) / h}
 	d3 = [4]float64{12 / (h * h * h), 6 / (h * h), -12 / (h * h * h), 6 / (h * h)}
 	return n, d1, d2, d3
+}
+
+// hermiteValues is n of hermite alone, free of its divisions: the fields of
+// an element need only the values.
+func hermiteValues(xi, h float64) [4]float64 {
+	x2, x3 := xi*xi, xi*xi*xi
+	return [4]float64{1 - 3*x2 + 2*x3, h * (xi - 2*x2 + x3), 3*x2 - 2*x3, h * (x3 - x2)}
 }
 
 // barStiffness is the closed-form bar stiffness: EA/h·[1 −1; −1 1] for the

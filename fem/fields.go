@@ -73,7 +73,7 @@ func (s *Solution) InElement(e int, x float64) Fields {
 	f.AxialDisplacement = (1-xi)*a[Axial] + xi*b[Axial] + 4*xi*(1-xi)*g.bubble
 	f.AxialForce = sec.axialRigidity * (g.slope + (4-8*xi)*g.bubble/h - sec.thermalStrain)
 
-	n, _, _, _ := hermite(xi, h)
+	n := hermiteValues(xi, h)
 	f.Deflection = n[0]*a[Transverse] + n[1]*a[Rotation] + n[2]*b[Transverse] + n[3]*b[Rotation]
 	d, rest := xi*h, (1-xi)*h
 	curvature := g.curvature + g.third*d
