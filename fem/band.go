@@ -86,14 +86,14 @@ func (e *PivotError) Error() string {
 //
 // Factorize costs O(N·K²) and SolveTo O(N·K); neither allocates once the
 // receiver has been used for a matrix of the same size. Half-bandwidths 1
-// (linear bar) and 3 (beam) have unrolled kernels; 3 is factorized from both
-// ends at once (band3.go).
+// (linear bar) and 3 (beam) have unrolled kernels that factorize from both
+// ends at once (band1.go, band3.go).
 type BandLDL struct {
 	n, k int
 	// f holds U above the diagonal and D⁻¹ on it, in SymBand layout, so the
 	// solves multiply instead of divide.
 	f []float64
-	// twisted: half-bandwidth 3 factorized from both ends (band3.go).
+	// twisted: factorized from both ends (band1.go, band3.go).
 	twisted bool
 	// work is scratch for the condition estimate.
 	work [3][]float64
@@ -115,29 +115,22 @@ func (f *BandLDL) Factorize(a *SymBand) error {
 	}
 	f.f = f.f[:n*w]
 	d, orig := f.f, a.Data
-	from := 0
-	var err error
-	// The unrolled kernels read a and write the factor in one pass; the
+	// The twisted kernels read a and write the factor in one pass; the
 	// general loop works in place on a copy.
-	switch k {
-	case 1:
-		from, err = factorBand1(d, orig, n)
-	case 3:
-		if n >= twistedMin {
-			if err := factorTwisted3(d, orig, n); err != nil {
-				return err
-			}
-			f.n, f.k, f.twisted = n, k, true
-			return nil
-		}
-		fallthrough
+	var err error
+	switch {
+	case k == 1 && n >= 1:
+		err = factorTwisted1(d, orig, n)
+		f.twisted = true
+	case k == 3 && n >= twistedMin:
+		err = factorTwisted3(d, orig, n)
+		f.twisted = true
 	default:
 		copy(d, orig[:n*w])
-	}
-	if err == nil {
-		err = factorRows(d, orig, n, k, from)
+		err = factorRows(d, orig, n, k)
 	}
 	if err != nil {
+		f.twisted = false
 		return err
 	}
 	f.n, f.k = n, k
@@ -147,10 +140,10 @@ func (f *BandLDL) Factorize(a *SymBand) error {
 // pivotOK is the singularity test of one pivot against its original diagonal.
 func pivotOK(piv, diag float64) bool { return piv > pivotTolerance*math.Abs(diag) }
 
-// factorRows is the general right-looking elimination of rows from..n-1.
-func factorRows(d, orig []float64, n, k, from int) error {
+// factorRows is the general right-looking elimination, in place in d.
+func factorRows(d, orig []float64, n, k int) error {
 	w := k + 1
-	for i := from; i < n; i++ {
+	for i := range n {
 		row := d[i*w : i*w+w]
 		piv := row[0]
 		if !pivotOK(piv, orig[i*w]) {
@@ -179,33 +172,6 @@ func factorRows(d, orig []float64, n, k, from int) error {
 	return nil
 }
 
-// factorBand1 eliminates the rows of a half-bandwidth-1 matrix that have a
-// full band below them, reading orig and writing the factor to d, and
-// returns the first row left to factorRows, with the rows from there on
-// copied to d with their pending updates.
-func factorBand1(d, orig []float64, n int) (int, error) {
-	var p0 float64 // update pending for the diagonal of row i
-	i := 0
-	for ; i+1 < n; i++ {
-		o := orig[2*i : 2*i+2 : 2*i+2]
-		piv := o[0] + p0
-		if !pivotOK(piv, o[0]) {
-			return i, &PivotError{Row: i, Pivot: piv, Diagonal: o[0]}
-		}
-		inv := 1 / piv
-		a1 := o[1]
-		l1 := a1 * inv
-		p0 = -l1 * a1
-		r := d[2*i : 2*i+2 : 2*i+2]
-		r[0], r[1] = inv, l1
-	}
-	if i < n {
-		copy(d[2*i:], orig[2*i:2*n])
-		d[2*i] += p0
-	}
-	return i, nil
-}
-
 // SolveTo solves A·x = b into dst using the factorization; dst and b may be
 // the same slice.
 func (f *BandLDL) SolveTo(dst, b []float64) error {
@@ -214,35 +180,18 @@ func (f *BandLDL) SolveTo(dst, b []float64) error {
 		return fmt.Errorf("fem: solve with vectors of length %d and %d for a factorization of order %d", len(dst), len(b), n)
 	}
 	d, x := f.f, dst
-	if f.twisted {
+	switch {
+	case f.twisted && k == 1:
+		solveTwisted1(d, x, b, n)
+		return nil
+	case f.twisted:
 		solveTwisted3(d, x, b, n)
 		return nil
 	}
-	// Rows below tail have a full band under them and take the unrolled
-	// kernel, which reads b as it goes and carries the update of the next
-	// row in a register; the rest is done in place on x.
-	tail := 0
-	if k == 1 {
-		tail = max(n-k, 0)
-	}
 	// Uᵀ·y = b and z = D⁻¹·y, by columns of U.
-	if k == 1 {
-		var p0 float64
-		for i := range tail {
-			r := d[2*i : 2*i+2 : 2*i+2]
-			y := b[i] + p0
-			p0 = -r[1] * y
-			x[i] = y * r[0]
-		}
-		copy(x[tail:], b[tail:])
-		if tail < n {
-			x[tail] += p0
-		}
-	} else {
-		copy(x, b)
-	}
+	copy(x, b)
 	w := k + 1
-	for i := tail; i < n; i++ {
+	for i := range n {
 		row := d[i*w : i*w+w]
 		y := x[i]
 		rest := x[i+1 : i+1+min(k, n-1-i)]
@@ -252,7 +201,7 @@ func (f *BandLDL) SolveTo(dst, b []float64) error {
 		x[i] = y * row[0]
 	}
 	// U·x = z, by rows of U.
-	for i := n - 1; i >= tail; i-- {
+	for i := n - 1; i >= 0; i-- {
 		row := d[i*w : i*w+w]
 		s := x[i]
 		rest := x[i+1 : i+1+min(k, n-1-i)]
@@ -260,13 +209,6 @@ func (f *BandLDL) SolveTo(dst, b []float64) error {
 			s -= row[j+1] * rest[j]
 		}
 		x[i] = s
-	}
-	if tail > 0 {
-		x1 := x[tail]
-		for i := tail - 1; i >= 0; i-- {
-			x1 = x[i] - d[2*i+1]*x1
-			x[i] = x1
-		}
 	}
 	return nil
 }
