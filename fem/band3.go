@@ -26,39 +26,42 @@ func twistRow(n int) int { return (n - 3) / 2 }
 // third row's diagonal (p1 and p2 are already in a1 and a2). It returns
 // 1/piv, the multipliers and the new pending updates. Plain scalars, so the
 // chains stay in registers.
-func eliminate3(piv, a1, a2, a3, q0, q1, s0 float64) (inv, l1, l2, l3, p0, p1, p2, nq0, nq1, ns0 float64) {
-	// a1² is ready before the division ends: the next pivot waits for one
-	// multiplication after it, not two.
-	a11 := a1 * a1
+func eliminate3(piv, a1, a2, a3, q0, q1, s0, next float64) (inv, l1, l2, l3, nextPiv, p0, p1, p2, nq0, nq1, ns0 float64) {
+	// The next pivot is (its diagonal + q0) − a1²/piv: one division and one
+	// subtraction after this pivot, the sum and a1² being ready before.
+	// 1/piv, a second division, is not on that path.
+	t := a1 * a1 / piv
 	inv = 1 / piv
 	l1, l2, l3 = a1*inv, a2*inv, a3*inv
-	return inv, l1, l2, l3, q0 - a11*inv, q1 - l1*a2, -l1 * a3, s0 - l2*a2, -l2 * a3, -l3 * a3
+	return inv, l1, l2, l3, (next + q0) - t, q0 - t, q1 - l1*a2, -l1 * a3, s0 - l2*a2, -l2 * a3, -l3 * a3
 }
 
 // factorTwisted3 factorizes orig (n ≥ twistedMin, half-bandwidth 3) into d.
 func factorTwisted3(d, orig []float64, n int) error {
 	t := twistRow(n)
-	// Pending updates of the downward (p, q, s) and upward (u, v, w) chains.
+	// Pending updates of the downward (p, q, s) and upward (u, v, w) chains,
+	// and the next pivot of each.
 	var p0, p1, p2, q0, q1, s0 float64
 	var u0, u1, u2, v0, v1, w0 float64
+	down, up := orig[0], orig[4*(n-1)]
 	// Rows t+3..n−1 go upwards: as many as go downwards, or one more.
 	for i := range n - 3 - t {
 		if i < t {
-			o := orig[4*i : 4*i+4 : 4*i+4]
-			piv := o[0] + p0
+			o := orig[4*i : 4*i+5 : 4*i+5]
+			piv := down
 			if !pivotOK(piv, o[0]) {
 				return &PivotError{Row: i, Pivot: piv, Diagonal: o[0]}
 			}
 			r := d[4*i : 4*i+4 : 4*i+4]
-			r[0], r[1], r[2], r[3], p0, p1, p2, q0, q1, s0 = eliminate3(piv, o[1]+p1, o[2]+p2, o[3], q0, q1, s0)
+			r[0], r[1], r[2], r[3], down, p0, p1, p2, q0, q1, s0 = eliminate3(piv, o[1]+p1, o[2]+p2, o[3], q0, q1, s0, o[4])
 		}
 		// The upward row j has links A[j−1][j], A[j−2][j], A[j−3][j].
 		j := n - 1 - i
-		piv := orig[4*j] + u0
+		piv := up
 		if !pivotOK(piv, orig[4*j]) {
 			return &PivotError{Row: j, Pivot: piv, Diagonal: orig[4*j]}
 		}
-		d[4*j], d[4*j-3], d[4*j-6], d[4*j-9], u0, u1, u2, v0, v1, w0 = eliminate3(piv, orig[4*j-3]+u1, orig[4*j-6]+u2, orig[4*j-9], v0, v1, w0)
+		d[4*j], d[4*j-3], d[4*j-6], d[4*j-9], up, u0, u1, u2, v0, v1, w0 = eliminate3(piv, orig[4*j-3]+u1, orig[4*j-6]+u2, orig[4*j-9], v0, v1, w0, orig[4*j-4])
 	}
 	// The block gets both chains' updates: downward ones counted from row
 	// t, upward ones from row t+2.
