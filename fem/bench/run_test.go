@@ -6,6 +6,8 @@ import (
 	"strconv"
 	"strings"
 	"testing"
+
+	"stave/fem"
 )
 
 // TestQuickRun runs every part at small sizes and checks that the report
@@ -108,6 +110,45 @@ func collectKeys(v any, keys map[string]int) {
 	case []any:
 		for _, x := range v {
 			collectKeys(x, keys)
+		}
+	}
+}
+
+// A system BandLDL refuses (a free chain of springs: singular) is timed on
+// the stand-in, its diagonal doubled, and the refusal is kept in the row;
+// a system both factorize is timed as it is.
+func TestKernelsFallBackToStandIn(t *testing.T) {
+	cfg := QuickConfig()
+	chain := func(n int, free bool) *System {
+		a := fem.NewSymBand(n, 1)
+		for i := range n - 1 {
+			a.Data[2*i] += 1
+			a.Data[2*i+2] += 1
+			a.Data[2*i+1] = -1
+		}
+		if !free {
+			a.Data[0] += 1 // one end held by a spring
+		}
+		b := make([]float64, n)
+		b[n-1] = 1
+		return &System{A: a, B: b}
+	}
+	for _, free := range []bool{false, true} {
+		var row Row
+		sys := chain(50, free)
+		measureKernels(cfg, sys, nil, &row)
+		wantSystem := map[bool]string{false: "model", true: "stand-in"}[free]
+		if row.KernelSystem != wantSystem {
+			t.Errorf("free %v: timed on %q, want %q", free, row.KernelSystem, wantSystem)
+		}
+		if free != (len(row.KernelFailures) > 0) {
+			t.Errorf("free %v: refusals %q", free, row.KernelFailures)
+		}
+		if row.OursSeconds <= 0 || row.GonumBandSeconds <= 0 || row.OursToGonumRatio <= 0 {
+			t.Errorf("free %v: kernels not timed: %+v", free, row)
+		}
+		if !row.Agreement.Agree || row.Agreement.FemCompared {
+			t.Errorf("free %v: agreement %+v, want agreement without fem's answer", free, row.Agreement)
 		}
 	}
 }
