@@ -103,7 +103,29 @@ type BandLDL struct {
 // returns a *PivotError, and leaves the receiver unusable, when a pivot is not
 // positive enough: a is then singular, not positive definite, or too badly
 // conditioned to solve in float64.
-func (f *BandLDL) Factorize(a *SymBand) error {
+func (f *BandLDL) Factorize(a *SymBand) error { return f.factorize(a, nil, nil) }
+
+// FactorizeSolve is Factorize followed by SolveTo(x, b), with the forward
+// substitution done in the factorization's sweep for half-bandwidth 1: one
+// pass over the factor less. (In the beam's kernel the extra chains would
+// not fit the processor's registers; it solves after factorizing.) x and b
+// may be the same slice. On error x holds no solution.
+func (f *BandLDL) FactorizeSolve(a *SymBand, x, b []float64) error {
+	if len(x) != a.N || len(b) != a.N {
+		return fmt.Errorf("fem: solve with vectors of length %d and %d for a matrix of order %d", len(x), len(b), a.N)
+	}
+	if err := f.factorize(a, x, b); err != nil {
+		return err
+	}
+	if f.k == 1 {
+		return nil
+	}
+	return f.SolveTo(x, b)
+}
+
+// factorize is Factorize; with b not nil the half-bandwidth-1 kernel also
+// solves into x.
+func (f *BandLDL) factorize(a *SymBand, x, b []float64) error {
 	n, k := a.N, a.K
 	w := k + 1
 	if n < 0 || k < 0 || len(a.Data) < n*w {
@@ -120,7 +142,7 @@ func (f *BandLDL) Factorize(a *SymBand) error {
 	var err error
 	switch {
 	case k == 1 && n >= 1:
-		err = factorTwisted1(d, orig, n)
+		err = factorTwisted1(d, orig, n, x, b)
 		f.twisted = true
 	case k == 3 && n >= twistedMin:
 		err = factorTwisted3(d, orig, n)

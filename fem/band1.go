@@ -11,11 +11,16 @@ package fem
 // twistRow1 is the row an n×n band-1 matrix eliminates last.
 func twistRow1(n int) int { return (n - 1) / 2 }
 
-// factorTwisted1 factorizes orig (n ≥ 1, half-bandwidth 1) into d.
-func factorTwisted1(d, orig []float64, n int) error {
+// factorTwisted1 factorizes orig (n ≥ 1, half-bandwidth 1) into d. With b
+// not nil it solves into x as well, the forward substitution riding in the
+// factorization's sweep beside the pivots' chains.
+func factorTwisted1(d, orig []float64, n int, x, b []float64) error {
 	t := twistRow1(n)
-	// What the last pivot of each chain takes off the next diagonal: a²/pivot.
+	rhs := b != nil
+	// What the last pivot of each chain takes off the next diagonal, a²/pivot,
+	// and the forward substitution's y with the multiplier that passes it on.
 	var down, up float64
+	var yd, ld, yu, lu float64
 	for i := range n - 1 - t {
 		if i < t {
 			o := orig[2*i : 2*i+2 : 2*i+2]
@@ -28,6 +33,11 @@ func factorTwisted1(d, orig []float64, n int) error {
 			inv := 1 / piv
 			r := d[2*i : 2*i+2 : 2*i+2]
 			r[0], r[1] = inv, a*inv
+			if rhs {
+				y := b[i] - ld*yd
+				x[i] = y * inv
+				yd, ld = y, r[1]
+			}
 		}
 		// The upward row j: its link A[j−1][j] and its diagonal.
 		j := n - 1 - i
@@ -41,12 +51,21 @@ func factorTwisted1(d, orig []float64, n int) error {
 		inv := 1 / piv
 		r := d[2*j-1 : 2*j+1 : 2*j+1]
 		r[0], r[1] = a*inv, inv
+		if rhs {
+			z := b[j] - lu*yu
+			x[j] = z * inv
+			yu, lu = z, r[0]
+		}
 	}
 	piv := orig[2*t] - down - up
 	if !pivotOK(piv, orig[2*t]) {
 		return &PivotError{Row: t, Pivot: piv, Diagonal: orig[2*t]}
 	}
 	d[2*t] = 1 / piv
+	if rhs {
+		x[t] = (b[t] - ld*yd - lu*yu) * d[2*t]
+		backwardTwisted1(d, x, n)
+	}
 	return nil
 }
 
@@ -88,11 +107,17 @@ func solveTwisted1(d, x, b []float64, n int) {
 		x[j] = z * d[2*j]
 		yu, lu = z, d[2*j-1]
 	}
-	xt := (b[t] - ld*yd - lu*yu) * d[2*t]
-	x[t] = xt
-	// Backward, from row t outwards both ways: x_i = z_i − l_i·x_{i+1}
-	// below, x_j = z_j − u_j·x_{j−1} above.
-	xd, xu := xt, xt
+	x[t] = (b[t] - ld*yd - lu*yu) * d[2*t]
+	backwardTwisted1(d, x, n)
+}
+
+// backwardTwisted1 is the back substitution of solveTwisted1, from row t
+// outwards both ways, on the forward solution in x: x_i = z_i − l_i·x_{i+1}
+// below, x_j = z_j − u_j·x_{j−1} above.
+func backwardTwisted1(d, x []float64, n int) {
+	t := twistRow1(n)
+	upRows := n - 1 - t
+	xd, xu := x[t], x[t]
 	k := 0
 	for ; k+1 < t; k += 2 {
 		i := t - 1 - k

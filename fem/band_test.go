@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"math/rand/v2"
+	"slices"
 	"testing"
 
 	"gonum.org/v1/gonum/blas"
@@ -73,6 +74,24 @@ func TestBandLDLAgainstGonumDense(t *testing.T) {
 					if math.Abs(got[i]-want.AtVec(i)) > 1e-12*max(1, math.Abs(want.AtVec(i))) {
 						t.Fatalf("x[%d] = %.15g, gonum %.15g", i, got[i], want.AtVec(i))
 					}
+				}
+				// Factorized and solved in one sweep, the same answer to
+				// round-off, in place too.
+				fused := make([]float64, n)
+				if err := f.FactorizeSolve(a, fused, b); err != nil {
+					t.Fatal(err)
+				}
+				for i := range fused {
+					if math.Abs(fused[i]-want.AtVec(i)) > 1e-12*max(1, math.Abs(want.AtVec(i))) {
+						t.Fatalf("FactorizeSolve: x[%d] = %.15g, gonum %.15g", i, fused[i], want.AtVec(i))
+					}
+				}
+				inPlace := slices.Clone(b)
+				if err := f.FactorizeSolve(a, inPlace, inPlace); err != nil {
+					t.Fatal(err)
+				}
+				if !slices.Equal(inPlace, fused) {
+					t.Fatalf("in-place FactorizeSolve differs: %v vs %v", inPlace, fused)
 				}
 				// In place, the same answer.
 				if err := f.SolveTo(b, b); err != nil {
@@ -176,10 +195,9 @@ func BenchmarkBandLDL(b *testing.B) {
 	x := make([]float64, len(rhs))
 	var f BandLDL
 	for b.Loop() {
-		if err := f.Factorize(a); err != nil {
+		if err := f.FactorizeSolve(a, x, rhs); err != nil {
 			b.Fatal(err)
 		}
-		_ = f.SolveTo(x, rhs)
 	}
 }
 

@@ -284,15 +284,12 @@ func solveBanded(m *Model, mesh Mesh, els []elementData, nodal [][3]float64, p s
 		rhs[c.dof] = a.Data[c.dof*(kb+1)] * c.value
 	}
 	var f BandLDL
-	if err := f.Factorize(a); err != nil {
+	u := make([]float64, n)
+	if err := f.FactorizeSolve(a, u, rhs); err != nil {
 		var pe *PivotError
 		if errors.As(err, &pe) {
 			return nil, 0, pivotMessage(mesh.X, p, pe)
 		}
-		return nil, 0, err
-	}
-	u := make([]float64, n)
-	if err := f.SolveTo(u, rhs); err != nil {
 		return nil, 0, err
 	}
 	scale := make([]float64, n)

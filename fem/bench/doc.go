@@ -25,15 +25,16 @@
 // fine-mesh system of linear bar or Hermite beam elements, with the same
 // consistent loads on the same mesh and the supports applied as fem applies
 // them, which is what any direct banded solve of the model would face. On
-// that identical system it times fem.BandLDL (Factorize + SolveTo), gonum's
+// that identical system it times fem.BandLDL (FactorizeSolve), gonum's
 // banded Cholesky (lapack64.Pbtrf + Pbtrs), gonum's dense Cholesky up to a
 // few thousand unknowns, and one copy of the band array, the memory floor no
 // factorization of a band can beat. Pbtrs's solution is compared with ours
 // and with the displacements fem.SolveOnMesh returned, in the diagonal
 // scaling that Cholesky's error bounds are stated in, against a tolerance
 // that grows with the estimated condition number. The fine beam system
-// becomes singular to working precision long before 1e6 elements; the
-// report says so rather than compare noise.
+// becomes singular to working precision from about 1e5 elements; the report
+// says so rather than compare noise, and times the kernels there on a
+// stand-in of the same size and band, the matrix with its diagonal doubled.
 //
 // A pitfall row times mat.BandCholesky.Factorize, whose built-in condition
 // estimate grows quadratically with the number of unknowns, against Pbtrf.
