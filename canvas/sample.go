@@ -236,10 +236,12 @@ const parallelElements = 4096
 // sampleElements adds the samples of elements from ≤ i < to to cs; the
 // visible elements end before element visible.
 func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, to, visible int) {
+	// The quantities are read by pointer: a copy of each, strings and all,
+	// for every sample cost more than reading the sample.
 	add := func(x float64, f *fem.Fields) {
 		k := cs[0].column(x)
-		for i, q := range qs {
-			cs[i].addTo(k, x, q.get(f))
+		for i := range qs {
+			cs[i].addTo(k, x, qs[i].get(f))
 		}
 	}
 	// What a narrow element's ends need: an evaluation at the start unless
@@ -295,7 +297,8 @@ func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, t
 		// the node then shows within the pixel column, as it would anyway).
 		last, subPixel := k == visible-1, h*v.Scale < 1
 		kEnd := cs[0].column(e.End)
-		for i, q := range qs {
+		for i := range qs {
+			q := &qs[i]
 			if q.within == nodal && !last || q.within == constant && subPixel {
 				continue
 			}
