@@ -345,32 +345,34 @@ func kernelsOn(cfg Config, a *fem.SymBand, b, femX []float64, row *Row) []string
 	var failures []string
 
 	dst := make([]float64, len(a.Data))
-	row.BandCopySeconds = timeOp(reps, cfg.MinBatch, func() { copy(dst, a.Data) })
-
+	bandCopy := func() { copy(dst, a.Data) }
 	var f fem.BandLDL
 	ours := make([]float64, n)
-	oursErr := f.FactorizeSolve(a, ours, b)
-	if oursErr == nil {
-		row.OursSeconds = timeOp(reps, cfg.MinBatch, func() { _ = f.FactorizeSolve(a, ours, b) })
-		row.OursToBandCopyRatio = ratio(row.OursSeconds, row.BandCopySeconds)
-		row.OursToBandCopyPass = row.OursToBandCopyRatio <= targetBandCopyRatio
-	} else {
-		failures = append(failures, "fem.BandLDL: "+oursErr.Error())
+	oursOp := func() { _ = f.FactorizeSolve(a, ours, b) }
+	if err := f.FactorizeSolve(a, ours, b); err != nil {
+		failures = append(failures, "fem.BandLDL: "+err.Error())
 	}
-
 	factor := make([]float64, len(a.Data))
 	theirs := make([]float64, n)
-	if gonumBandSolve(a, b, factor, theirs) {
-		row.GonumBandSeconds = timeOp(reps, cfg.MinBatch, func() { gonumBandSolve(a, b, factor, theirs) })
-	} else {
+	gonumOp := func() { gonumBandSolve(a, b, factor, theirs) }
+	if !gonumBandSolve(a, b, factor, theirs) {
 		failures = append(failures, "lapack64.Pbtrf: the matrix is not positive definite to working precision")
 	}
-	row.FemSolveToGonumRatio = ratio(row.SolveSeconds, row.GonumBandSeconds)
 	if len(failures) > 0 {
+		row.BandCopySeconds = timeOp(reps, cfg.MinBatch, bandCopy)
 		return failures
 	}
-	row.OursToGonumRatio = ratio(row.OursSeconds, row.GonumBandSeconds)
+	// In turns, so each ratio compares runs made in the same state of the
+	// machine, whose speed drifts by up to 2× within a minute; after a
+	// collection, so none runs beside them (the kernels allocate nothing).
+	runtime.GC()
+	t := timeRounds(reps, cfg.MinBatch, oursOp, gonumOp, bandCopy)
+	row.OursSeconds, row.GonumBandSeconds, row.BandCopySeconds = median(t[0]), median(t[1]), median(t[2])
+	row.OursToGonumRatio = pairedRatio(t[0], t[1])
 	row.OursToGonumPass = row.OursToGonumRatio <= targetGonumRatio
+	row.OursToBandCopyRatio = pairedRatio(t[0], t[2])
+	row.OursToBandCopyPass = row.OursToBandCopyRatio <= targetBandCopyRatio
+	row.FemSolveToGonumRatio = ratio(row.SolveSeconds, row.GonumBandSeconds)
 
 	scale := make([]float64, n)
 	for i := range scale {

@@ -35,6 +35,44 @@ func timeOp(reps int, minBatch time.Duration, op func()) float64 {
 	return median(times)
 }
 
+// timeRounds times several operations in turns: each repetition runs a
+// batch of each, one after the other, so all of a round meet the machine in
+// the same state. It returns, per operation, the time of one call in every
+// round, in seconds; compare operations round by round (pairedRatio).
+func timeRounds(reps int, minBatch time.Duration, ops ...func()) [][]float64 {
+	batches := make([]int, len(ops))
+	for i, op := range ops {
+		start := time.Now()
+		op()
+		batches[i] = batchSize(time.Since(start), minBatch)
+	}
+	times := make([][]float64, len(ops))
+	for range max(reps, 1) {
+		for i, op := range ops {
+			start := time.Now()
+			for range batches[i] {
+				op()
+			}
+			times[i] = append(times[i], time.Since(start).Seconds()/float64(batches[i]))
+		}
+	}
+	return times
+}
+
+// pairedRatio is the median over rounds of a[r]/b[r].
+func pairedRatio(a, b []float64) float64 {
+	r := make([]float64, 0, len(a))
+	for i := range a {
+		if b[i] > 0 {
+			r = append(r, a[i]/b[i])
+		}
+	}
+	if len(r) == 0 {
+		return 0
+	}
+	return median(r)
+}
+
 // timeStages is timeOp for an operation made of consecutive stages: op
 // returns the duration of each. It reports the median of each stage and the
 // median of their sum. The collector runs before each batch so garbage from
