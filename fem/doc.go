@@ -53,7 +53,9 @@
 // the system falls apart into the small key-point system — assembled in
 // banded symmetric storage (SymBand) and factorized by BandLDL — and one 1×1
 // (bar) or 2×2 (beam) block per inner node. The cost is linear in the number
-// of elements and round-off does not grow with it. Before factorizing, the
+// of elements and round-off does not grow with it; meshes of 4,096 elements
+// or more are refined on two goroutines, with the same answer to the bit on
+// any number of cores. Before factorizing, the
 // supports are checked for rigid-body motions (*MechanismError); the
 // condition number of the key-point systems is estimated in linear time, and
 // Solution.Condition bounds the growth of round-off (relative error about
