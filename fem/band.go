@@ -77,6 +77,16 @@ func (e *PivotError) Error() string {
 	return fmt.Sprintf("fem: the matrix is singular to working precision at row %d (pivot %.3g, diagonal %.3g)", e.Row, e.Pivot, e.Diagonal)
 }
 
+// bandKernel names the factorization a BandLDL holds.
+type bandKernel int
+
+const (
+	generalRows bandKernel = iota // factorRows, any half-bandwidth
+	twisted1                      // half-bandwidth 1 from both ends (band1.go)
+	twisted3                      // half-bandwidth 3 from both ends (band3.go)
+	nodeBlocks                    // 2×2 node blocks from both ends (band2.go)
+)
+
 // BandLDL is the factorization A = Uᵀ·D·U of a symmetric positive definite
 // band matrix, U unit upper triangular with the band of A. Use it as
 //
@@ -87,14 +97,16 @@ func (e *PivotError) Error() string {
 // Factorize costs O(N·K²) and SolveTo O(N·K); neither allocates once the
 // receiver has been used for a matrix of the same size. Half-bandwidths 1
 // (linear bar) and 3 (beam) have unrolled kernels that factorize from both
-// ends at once (band1.go, band3.go).
+// ends at once (band1.go, band3.go), and a beam's system, block tridiagonal
+// by nodes, is factorized node by node (band2.go).
 type BandLDL struct {
 	n, k int
-	// f holds U above the diagonal and D⁻¹ on it, in SymBand layout, so the
-	// solves multiply instead of divide.
+	// f holds the factor in the layout of its kernel: U above the diagonal
+	// and D⁻¹ on it, in SymBand layout, but for the node blocks (band2.go);
+	// the solves multiply instead of divide.
 	f []float64
-	// twisted: factorized from both ends (band1.go, band3.go).
-	twisted bool
+	// kernel is the factorization in f.
+	kernel bandKernel
 	// work is scratch for the condition estimate.
 	work [3][]float64
 }
@@ -117,7 +129,7 @@ func (f *BandLDL) FactorizeSolve(a *SymBand, x, b []float64) error {
 	if err := f.factorize(a, x, b); err != nil {
 		return err
 	}
-	if f.k == 1 {
+	if f.kernel == twisted1 {
 		return nil
 	}
 	return f.SolveTo(x, b)
@@ -131,28 +143,31 @@ func (f *BandLDL) factorize(a *SymBand, x, b []float64) error {
 	if n < 0 || k < 0 || len(a.Data) < n*w {
 		return errors.New("fem: band matrix storage is smaller than its size")
 	}
-	f.n, f.k, f.twisted = 0, 0, false
+	f.n, f.k, f.kernel = 0, 0, generalRows
 	if cap(f.f) < n*w {
 		f.f = make([]float64, n*w)
 	}
 	f.f = f.f[:n*w]
 	d, orig := f.f, a.Data
-	// The twisted kernels read a and write the factor in one pass; the
+	// The unrolled kernels read a and write the factor in one pass; the
 	// general loop works in place on a copy.
 	var err error
 	switch {
 	case k == 1 && n >= 1:
-		err = factorTwisted1(d, orig, n, x, b)
-		f.twisted = true
+		f.kernel, err = twisted1, factorTwisted1(d, orig, n, x, b)
+	case k == 3 && n >= nodeBlockMin && n%2 == 0:
+		f.kernel, err = nodeBlocks, factorNodes(d, orig, n)
+		if err == errNotNodeBlocked {
+			f.kernel, err = twisted3, factorTwisted3(d, orig, n)
+		}
 	case k == 3 && n >= twistedMin:
-		err = factorTwisted3(d, orig, n)
-		f.twisted = true
+		f.kernel, err = twisted3, factorTwisted3(d, orig, n)
 	default:
 		copy(d, orig[:n*w])
 		err = factorRows(d, orig, n, k)
 	}
 	if err != nil {
-		f.twisted = false
+		f.kernel = generalRows
 		return err
 	}
 	f.n, f.k = n, k
@@ -202,12 +217,15 @@ func (f *BandLDL) SolveTo(dst, b []float64) error {
 		return fmt.Errorf("fem: solve with vectors of length %d and %d for a factorization of order %d", len(dst), len(b), n)
 	}
 	d, x := f.f, dst
-	switch {
-	case f.twisted && k == 1:
+	switch f.kernel {
+	case twisted1:
 		solveTwisted1(d, x, b, n)
 		return nil
-	case f.twisted:
+	case twisted3:
 		solveTwisted3(d, x, b, n)
+		return nil
+	case nodeBlocks:
+		solveNodes(d, x, b, n)
 		return nil
 	}
 	// Uᵀ·y = b and z = D⁻¹·y, by columns of U.
