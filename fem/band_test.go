@@ -181,12 +181,34 @@ func TestBandLDLNodeBlocks(t *testing.T) {
 			t.Fatalf("%d nodes: in-place solve differs", nodes)
 		}
 	}
-	// A coupling to the node after next: the row-by-row kernel takes it.
-	a := randomNodeBand(rnd, 5)
-	a.add(1, 4, 0.25)
+	// A coupling to the node after next, found after the first nodes: the
+	// row-by-row kernel takes over, with the right answer, also when the
+	// node kernel had begun solving, and in place.
+	a := randomNodeBand(rnd, 9)
+	a.add(9, 12, 0.25)
+	b := make([]float64, a.N)
+	for i := range b {
+		b[i] = 2*rnd.Float64() - 1
+	}
+	var want mat.VecDense
+	if err := want.SolveVec(dense(a), mat.NewVecDense(a.N, b)); err != nil {
+		t.Fatal(err)
+	}
 	var f BandLDL
-	if err := f.Factorize(a); err != nil || f.kernel != twisted3 {
-		t.Fatalf("a band not block tridiagonal: kernel %d, error %v; want the row-by-row kernel", f.kernel, err)
+	x, inPlace := make([]float64, a.N), slices.Clone(b)
+	for _, solve := range []func() error{
+		func() error { return f.Factorize(a) },
+		func() error { return f.FactorizeSolve(a, x, b) },
+		func() error { return f.FactorizeSolve(a, inPlace, inPlace) },
+	} {
+		if err := solve(); err != nil || f.kernel != twisted3 {
+			t.Fatalf("a band not block tridiagonal: kernel %d, error %v; want the row-by-row kernel", f.kernel, err)
+		}
+	}
+	for i := range x {
+		if math.Abs(x[i]-want.AtVec(i)) > 1e-12*max(1, math.Abs(want.AtVec(i))) || inPlace[i] != x[i] {
+			t.Fatalf("a band not block tridiagonal: x[%d] = %.15g (in place %.15g), gonum %.15g", i, x[i], inPlace[i], want.AtVec(i))
+		}
 	}
 }
 
