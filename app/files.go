@@ -345,6 +345,17 @@ func (w *Window) writeProject(path string, then func()) {
 	}
 	w.updateTitle()
 	w.setStatus("saved %s", path)
+	// Work in progress is saved as it is, so nothing is lost; say so when
+	// the file would not open again as it stands.
+	if err := storage.Validate(&w.project); err != nil {
+		var le *storage.LoadError
+		if errors.As(err, &le) {
+			le.File = filepath.Base(path)
+		}
+		w.setStatus("saved %s, but it will not open again until the problems listed are fixed", path)
+		dialog.ShowInformation("Saved, but it will not open as it is",
+			"The member was saved, so no work is lost, but "+err.Error()+"\nFix these and save again.", w.win)
+	}
 	if then != nil {
 		then()
 	}

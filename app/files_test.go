@@ -46,6 +46,31 @@ func TestSaveMarksTitleAndReopens(t *testing.T) {
 	solved(t, w, q)
 }
 
+// A member that does not validate is still saved, so no work is lost, and
+// the window says the file will not open until it is fixed.
+func TestSaveWarnsWhenTheFileWouldNotOpen(t *testing.T) {
+	p := demoProject(t)
+	p.Model.Supports[1].X = 9 // beyond the 5.5 m member
+	w, _ := newTestWindow(t, p)
+	path := filepath.Join(t.TempDir(), "draft.json")
+	w.writeProject(path, nil)
+	if _, err := os.Stat(path); err != nil {
+		t.Fatalf("the member was not saved: %v", err)
+	}
+	if got := w.status.Text; !strings.Contains(got, "will not open again") {
+		t.Errorf("status after saving an invalid member is %q", got)
+	}
+	if _, err := storage.Load(path); err == nil {
+		t.Errorf("the saved draft loads; the test needs a member that does not validate")
+	}
+	// A valid member saves without the warning.
+	w.project = *demoProject(t)
+	w.writeProject(path, nil)
+	if got := w.status.Text; strings.Contains(got, "will not open") {
+		t.Errorf("status after saving a valid member is %q", got)
+	}
+}
+
 // TestExports writes every kind through Export and through the window's
 // path, and checks each starts the way its format requires.
 func TestExports(t *testing.T) {

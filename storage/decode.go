@@ -2,7 +2,6 @@ package storage
 
 import (
 	"fmt"
-	"io"
 	"math"
 	"strconv"
 	"strings"
@@ -51,18 +50,9 @@ func listProblems(problems []Problem) string {
 	return strings.Join(lines, "\n")
 }
 
-// Decode reads a project file. On any problem it returns nil and a
-// *LoadError listing all problems found, so an open project is never
+// Unmarshal reads a project file's bytes. On any problem it returns nil and
+// a *LoadError listing all problems found, so an open project is never
 // replaced by a half-read one.
-func Decode(r io.Reader) (*Project, error) {
-	data, err := io.ReadAll(r)
-	if err != nil {
-		return nil, fmt.Errorf("storage: cannot read the project: %w", err)
-	}
-	return Unmarshal(data)
-}
-
-// Unmarshal is Decode for bytes already in memory.
 func Unmarshal(data []byte) (*Project, error) {
 	top, err := parseTree(data)
 	if err != nil {
@@ -85,7 +75,7 @@ func Unmarshal(data []byte) (*Project, error) {
 	return p, nil
 }
 
-// Validate checks a project as Decode would after reading it, so the
+// Validate checks a project as Unmarshal would after reading it, so the
 // application can warn before saving a file that would not open again.
 // It returns nil or a *LoadError.
 func Validate(p *Project) error {

@@ -8,14 +8,15 @@
 //
 // The pieces fit together as follows:
 //
-//   - Encode writes a Project as canonical JSON: keys in a fixed order, two
+//   - Marshal writes a Project as canonical JSON: keys in a fixed order, two
 //     spaces of indentation, optional empty values left out, a trailing
-//     newline. Decoding and encoding again gives the same bytes.
-//   - Decode parses strictly (unknown keys, wrong types, duplicate keys are
+//     newline. Reading and writing again gives the same bytes.
+//   - Unmarshal parses strictly (unknown keys, wrong types, duplicate keys are
 //     problems), migrates files of older format versions, refuses newer ones,
 //     and checks the whole model. It reports every problem at once in a
 //     *LoadError whose entries name the place in the file ("loads[3].points[1]").
-//     A failed decode returns no Project.
+//     A failed read returns no Project. Validate runs the same checks on a
+//     Project in memory, so the application can warn before a save.
 //   - Save writes atomically: a temporary file in the same folder, synced,
 //     then the previous file kept as NAME.bak and the new one renamed into
 //     place. A failure at any step leaves the previous file as it was.

@@ -4,7 +4,6 @@ import (
 	"bytes"
 	"encoding/json"
 	"fmt"
-	"io"
 	"math"
 	"strconv"
 	"strings"
@@ -178,21 +177,11 @@ func (n number) MarshalJSON() ([]byte, error) {
 	return []byte(s), nil
 }
 
-// Encode writes p to w as a canonical project file. It refuses values a file
+// Marshal returns p as a canonical project file. It refuses values a file
 // cannot hold (NaN, infinities, unknown kinds) and names their place, and
 // leaves out what fem ignores (the stiffness of a rigid support, the
 // settlement of a free motion). It does not otherwise check the model, so work
 // in progress can always be saved; Validate tells whether it would load.
-func Encode(w io.Writer, p *Project) error {
-	data, err := Marshal(p)
-	if err != nil {
-		return err
-	}
-	_, err = w.Write(data)
-	return err
-}
-
-// Marshal returns the canonical file bytes of p (see Encode).
 func Marshal(p *Project) ([]byte, error) {
 	var c converter
 	f := c.toFile(p)
