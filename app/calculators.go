@@ -2,6 +2,7 @@ package app
 
 import (
 	"fmt"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -13,9 +14,11 @@ import (
 
 	"stave/canvas"
 	"stave/fem"
+	"stave/fem/check"
 	"stave/fem/material"
 	"stave/fem/section"
 	"stave/fem/units"
+	"stave/storage"
 )
 
 // sectionShape is one shape of the section calculator.
@@ -210,25 +213,53 @@ func (w *Window) showMaterials() {
 
 // showCheckLimits edits the project's deflection limit and safety factor.
 func (w *Window) showCheckLimits() {
-	v := w.project.View
-	ratio, factor := widget.NewEntry(), widget.NewEntry()
-	ratio.SetText(units.FormatNumber(v.DeflectionLimit))
-	factor.SetText(units.FormatNumber(v.SafetyFactor))
-	dialog.ShowForm("Check limits", "Apply", "Cancel", []*widget.FormItem{
-		widget.NewFormItem("Deflection limit: span /", ratio),
-		widget.NewFormItem("Safety factor on allowable stress", factor),
-	}, func(ok bool) {
+	f := newCheckLimitsForm(w.project.View)
+	dialog.ShowForm("Check limits", "Apply", "Cancel", f.items, func(ok bool) {
 		if !ok {
 			return
 		}
-		n, err1 := strconv.ParseFloat(strings.TrimSpace(ratio.Text), 64)
-		f, err2 := strconv.ParseFloat(strings.TrimSpace(factor.Text), 64)
-		if err1 != nil || err2 != nil || !(n > 0) || !(f > 0) {
+		n, err1 := strconv.ParseFloat(strings.TrimSpace(f.ratio.Text), 64)
+		sf, err2 := strconv.ParseFloat(strings.TrimSpace(f.factor.Text), 64)
+		if err1 != nil || err2 != nil || !(n > 0) || !(sf > 0) {
 			w.setStatus("check limits not changed: type positive numbers, such as 360 and 1.5")
 			return
 		}
-		w.setCheckLimits(n, f)
+		w.setCheckLimits(n, sf)
 	}, w.win)
+}
+
+// checkLimitsForm is the content of the Check limits dialog: the span/n of
+// the deflection check, with typical values to pick from, and the safety
+// factor on allowable stress.
+type checkLimitsForm struct {
+	ratio, factor *widget.Entry
+	typical       *widget.Select
+	items         []*widget.FormItem
+}
+
+func newCheckLimitsForm(v storage.View) *checkLimitsForm {
+	f := &checkLimitsForm{ratio: widget.NewEntry(), factor: widget.NewEntry()}
+	f.ratio.SetText(units.FormatNumber(v.DeflectionLimit))
+	f.factor.SetText(units.FormatNumber(v.SafetyFactor))
+	limits := check.DeflectionLimits()
+	names := make([]string, len(limits))
+	for i, l := range limits {
+		names[i] = fmt.Sprintf("span/%g: %s", l.Ratio, l.Use)
+	}
+	f.typical = widget.NewSelect(names, func(name string) {
+		if i := slices.Index(names, name); i >= 0 {
+			f.ratio.SetText(units.FormatNumber(limits[i].Ratio))
+		}
+	})
+	f.typical.PlaceHolder = "pick a typical value…"
+	typical := widget.NewFormItem("Typical deflection limits", f.typical)
+	typical.HintText = "common practice; the governing code and the brief set the real limit"
+	f.items = []*widget.FormItem{
+		typical,
+		widget.NewFormItem("Deflection limit: span /", f.ratio),
+		widget.NewFormItem("Safety factor on allowable stress", f.factor),
+	}
+	return f
 }
 
 // setCheckLimits stores the limits and checks again.

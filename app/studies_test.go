@@ -11,7 +11,9 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"stave/fem"
+	"stave/fem/check"
 	"stave/fem/material"
+	"stave/fem/units"
 )
 
 // TestConvergenceStudy runs the study from the window: the table shows
@@ -144,5 +146,24 @@ func TestMaterialsPickerFills(t *testing.T) {
 	test.Tap(buttonNamed(t, buttons, "Fill"))
 	if got, want := w.Model().Segments[0].Material, material.Typical()[0].Material; got != want {
 		t.Errorf("segment 1 material %+v, want %+v", got, want)
+	}
+}
+
+// The Check limits dialog offers the typical span/n values of
+// check.DeflectionLimits; picking one fills the limit, which Apply then uses.
+func TestCheckLimitsOfferTypicalValues(t *testing.T) {
+	v := demoProject(t).View
+	f := newCheckLimitsForm(v)
+	if got, want := len(f.typical.Options), len(check.DeflectionLimits()); got != want || want == 0 {
+		t.Fatalf("%d typical limits offered, want %d", got, want)
+	}
+	for i, l := range check.DeflectionLimits() {
+		f.typical.SetSelected(f.typical.Options[i])
+		if got, want := f.ratio.Text, units.FormatNumber(l.Ratio); got != want {
+			t.Errorf("picking %q set the limit to %q, want %q", f.typical.Options[i], got, want)
+		}
+	}
+	if f.factor.Text != units.FormatNumber(v.SafetyFactor) {
+		t.Errorf("safety factor field %q, want the project's %g", f.factor.Text, v.SafetyFactor)
 	}
 }
