@@ -128,22 +128,12 @@ func solveNodes(d, x, b []float64, n int) {
 		if k < m {
 			i := k
 			f := d[8*i : 8*i+8 : 8*i+8]
-			bb := b[2*i : 2*i+2 : 2*i+2]
-			z1 := bb[0] - (p11*y1 + p21*y2)
-			z2 := bb[1] - (p12*y1 + p22*y2)
-			xx := x[2*i : 2*i+2 : 2*i+2]
-			xx[0], xx[1] = f[0]*z1+f[1]*z2, f[1]*z1+f[2]*z2
-			y1, y2 = z1, z2
+			y1, y2 = forwardNode(f, b[2*i:2*i+2:2*i+2], x[2*i:2*i+2:2*i+2], p11, p12, p21, p22, y1, y2)
 			p11, p12, p21, p22 = f[3], f[4], f[5], f[6]
 		}
 		j := nodes - 1 - k
 		f := d[8*j : 8*j+8 : 8*j+8]
-		bb := b[2*j : 2*j+2 : 2*j+2]
-		z1 := bb[0] - (q11*v1 + q21*v2)
-		z2 := bb[1] - (q12*v1 + q22*v2)
-		xx := x[2*j : 2*j+2 : 2*j+2]
-		xx[0], xx[1] = f[0]*z1+f[1]*z2, f[1]*z1+f[2]*z2
-		v1, v2 = z1, z2
+		v1, v2 = forwardNode(f, b[2*j:2*j+2:2*j+2], x[2*j:2*j+2:2*j+2], q11, q12, q21, q22, v1, v2)
 		q11, q12, q21, q22 = f[3], f[4], f[5], f[6]
 	}
 	f := d[8*m : 8*m+3 : 8*m+3]
@@ -158,15 +148,26 @@ func solveNodes(d, x, b []float64, n int) {
 	for k := range nodes - 1 - m {
 		if k < m {
 			i := m - 1 - k
-			f := d[8*i : 8*i+8 : 8*i+8]
-			xx := x[2*i : 2*i+2 : 2*i+2]
-			a1, a2 = xx[0]-(f[3]*a1+f[4]*a2), xx[1]-(f[5]*a1+f[6]*a2)
-			xx[0], xx[1] = a1, a2
+			a1, a2 = backwardNode(d[8*i:8*i+8:8*i+8], x[2*i:2*i+2:2*i+2], a1, a2)
 		}
 		j := m + 1 + k
-		f := d[8*j : 8*j+8 : 8*j+8]
-		xx := x[2*j : 2*j+2 : 2*j+2]
-		c1, c2 = xx[0]-(f[3]*c1+f[4]*c2), xx[1]-(f[5]*c1+f[6]*c2)
-		xx[0], xx[1] = c1, c2
+		c1, c2 = backwardNode(d[8*j:8*j+8:8*j+8], x[2*j:2*j+2:2*j+2], c1, c2)
 	}
+}
+
+// forwardNode is one node of the forward sweep: z = b − Wᵀ·y, W the
+// multiplier (w11 w12; w21 w22) of the node before and y its z, then S⁻¹·z
+// into x, S⁻¹ from the node's factor f. It returns z.
+func forwardNode(f, b, x []float64, w11, w12, w21, w22, y1, y2 float64) (z1, z2 float64) {
+	z1 = b[0] - (w11*y1 + w21*y2)
+	z2 = b[1] - (w12*y1 + w22*y2)
+	x[0], x[1] = f[0]*z1+f[1]*z2, f[1]*z1+f[2]*z2
+	return z1, z2
+}
+
+// backwardNode is one node of the back substitution: x −= W·a, W the node's
+// multiplier and a the x of the node before it in the sweep. It returns x.
+func backwardNode(f, x []float64, a1, a2 float64) (float64, float64) {
+	x[0], x[1] = x[0]-(f[3]*a1+f[4]*a2), x[1]-(f[5]*a1+f[6]*a2)
+	return x[0], x[1]
 }
