@@ -128,8 +128,8 @@ func refineAll(proto stretchRefiner, stretches []elementData, keys []int) (energ
 	return first.energy + second.energy, first.poison + second.poison
 }
 
-// cut splits the jobs holding more than most elements at their middle node,
-// in place in the order of the nodes, until none does.
+// cut splits the jobs holding more than most elements at their middle node
+// until none does, and returns them in the order of the nodes.
 func (r *stretchRefiner) cut(jobs []refineJob, stretches []elementData, most int) []refineJob {
 	out := make([]refineJob, 0, 2*len(jobs)+16)
 	var cutJob func(j refineJob)
