@@ -1,8 +1,10 @@
 package canvas
 
 import (
+	"cmp"
 	"image/color"
 	"math"
+	"slices"
 	"sort"
 	"strings"
 
@@ -57,6 +59,8 @@ type builder struct {
 	s        *Scene
 	u        units.System
 	occupied []rect
+	// texts are the labels, added to the scene after every other item.
+	texts []Item
 	// Finite element curves: the deflection, and one per strip in layout order.
 	deflection *curve
 	feCurves   []*curve
@@ -93,10 +97,36 @@ func Build(in Input, v View) *Scene {
 	b.sketch(lay)
 	b.diagrams(lay)
 	if in.Hovering {
-		x := b.sx(in.HoverX)
-		b.s.Items = append(b.s.Items, Item{Kind: Polyline, Points: []Point{{x, lay.top}, {x, v.Height}},
-			Stroke: hoverColour, StrokeWidth: 1, Dash: true})
+		b.hoverLine(b.sx(in.HoverX), lay.top, v.Height)
 	}
+	return b.scene()
+}
+
+// hoverLine draws the dashed line under the mouse from y0 to y1, broken
+// where it would cross a label: through the gaps of the glyphs a dash
+// turned the 5 of "2.500 m" into a 9.
+func (b *builder) hoverLine(x, y0, y1 float32) {
+	var gaps [][2]float32
+	for _, t := range b.texts {
+		if x >= t.At.X-2 && x <= t.At.X+t.Width+2 {
+			gaps = append(gaps, [2]float32{t.At.Y - 1, t.At.Y + textHeight(t.Size) + 1})
+		}
+	}
+	slices.SortFunc(gaps, func(a, b [2]float32) int { return cmp.Compare(a[0], b[0]) })
+	from := y0
+	for _, g := range append(gaps, [2]float32{y1, y1}) {
+		if g[0] > from {
+			b.s.Items = append(b.s.Items, Item{Kind: Polyline, Points: []Point{{x, from}, {x, min(g[0], y1)}},
+				Stroke: hoverColour, StrokeWidth: 1, Dash: true})
+		}
+		from = max(from, g[1])
+	}
+}
+
+// scene returns the items built with the texts on top of every other item.
+func (b *builder) scene() *Scene {
+	b.s.Items = append(b.s.Items, b.texts...)
+	b.texts = nil
 	return b.s
 }
 
@@ -170,7 +200,7 @@ func (b *builder) text(s string, x, y float32, size float32, ax, ay float32, c c
 	left := x - ax*w
 	left = max(2, min(b.v.Width-w-2, left))
 	top := y - ay*h
-	b.s.Items = append(b.s.Items, Item{Kind: Text, Text: s, At: Point{left, top}, Size: size, Bold: bold, Stroke: c, Width: w})
+	b.texts = append(b.texts, Item{Kind: Text, Text: s, At: Point{left, top}, Size: size, Bold: bold, Stroke: c, Width: w})
 	return rect{left, top, left + w, top + h}
 }
 

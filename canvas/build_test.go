@@ -36,6 +36,52 @@ func TestSceneSizeIsBoundedByWidth(t *testing.T) {
 	}
 }
 
+// Labels are drawn on top of everything else, and the hover line stops at
+// every label it would cross: through the gaps of the glyphs its dashes
+// made "2.500 m" read "2.900 m".
+func TestHoverLineSparesLabels(t *testing.T) {
+	m := demoModel(40)
+	in := solved(t, m)
+	v := NewView(1200, 900)
+	v.Fit(m)
+	for _, hx := range []float64{0.1, 1.5, 3, 4.2, 5.2} {
+		in.Hovering, in.HoverX = true, hx
+		s := Build(in, v)
+		x := v.ToScreenX(hx)
+		var hover [][2]float32
+		var crossed []Item
+		firstText := -1
+		for i, it := range s.Items {
+			switch {
+			case it.Kind == Text && firstText < 0:
+				firstText = i
+			case it.Kind != Text && firstText >= 0:
+				t.Fatalf("x = %g m: item %d (kind %d) is drawn after the text at %d", hx, i, it.Kind, firstText)
+			}
+			if it.Kind == Polyline && it.Dash && it.Stroke == hoverColour {
+				hover = append(hover, [2]float32{it.Points[0].Y, it.Points[1].Y})
+			}
+			if it.Kind == Text && x >= it.At.X && x <= it.At.X+it.Width {
+				crossed = append(crossed, it)
+			}
+		}
+		if len(hover) == 0 {
+			t.Fatalf("x = %g m: no hover line", hx)
+		}
+		for _, tx := range crossed {
+			top, bottom := tx.At.Y, tx.At.Y+textHeight(tx.Size)
+			for _, h := range hover {
+				if h[0] < bottom && h[1] > top {
+					t.Errorf("x = %g m: the hover line from y = %g to %g crosses the label %q (y %g to %g)", hx, h[0], h[1], tx.Text, top, bottom)
+				}
+			}
+		}
+		if hx == 4.2 && len(crossed) == 0 {
+			t.Errorf("x = %g m: the hover line crosses no label; the test needs one", hx)
+		}
+	}
+}
+
 func TestHitTest(t *testing.T) {
 	m := demoModel(20)
 	in := solved(t, m)

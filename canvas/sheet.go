@@ -133,7 +133,7 @@ func buildSheet(in SheetInput) *Scene {
 	for i, ln := range wrap(Caution, sheetText, true, right-sheetEdge) {
 		b.text(ln, sheetEdge, foot+float32(i)*textHeight(sheetText), sheetText, 0, 0, inkColour, true)
 	}
-	return b.s
+	return b.scene()
 }
 
 // diagramScale shrinks the diagrams onto the sheet.
