@@ -28,11 +28,14 @@ func factorTwisted1(d, orig []float64, n int, x, b []float64) error {
 			if !pivotOK(piv, o[0]) {
 				return &PivotError{Row: i, Pivot: piv, Diagonal: o[0]}
 			}
+			// The multiplier a/piv, then a times it: never a², which would
+			// overflow or underflow for entries beyond 1e±154.
 			a := o[1]
-			down = a * a / piv // divided, not multiplied by inv: one step shorter
+			l := a / piv
+			down = l * a
 			inv := 1 / piv
 			r := d[2*i : 2*i+2 : 2*i+2]
-			r[0], r[1] = inv, a*inv
+			r[0], r[1] = inv, l
 			if rhs {
 				y := b[i] - ld*yd
 				x[i] = y * inv
@@ -47,10 +50,11 @@ func factorTwisted1(d, orig []float64, n int, x, b []float64) error {
 			return &PivotError{Row: j, Pivot: piv, Diagonal: o[1]}
 		}
 		a := o[0]
-		up = a * a / piv
+		l := a / piv
+		up = l * a
 		inv := 1 / piv
 		r := d[2*j-1 : 2*j+1 : 2*j+1]
-		r[0], r[1] = a*inv, inv
+		r[0], r[1] = l, inv
 		if rhs {
 			z := b[j] - lu*yu
 			x[j] = z * inv

@@ -18,9 +18,22 @@ import "errors"
 // the symmetric 2×2), then the 2×2 multiplier S_i⁻¹·B_i (downward) or
 // T_i⁻¹·B_{i−1}ᵀ (upward), by rows.
 
-// errNotNodeBlocked says a half-bandwidth-3 matrix couples a rotation to the
-// node after next: the node-block kernel does not apply.
-var errNotNodeBlocked = errors.New("fem: the band is not block tridiagonal by nodes")
+// errNotNodeBlocked says the node-block kernel does not apply: the matrix
+// couples a rotation to the node after next, or a diagonal entry lies outside
+// nodeRange.
+var errNotNodeBlocked = errors.New("fem: the band is not block tridiagonal by nodes of moderate size")
+
+// nodeRange bounds the diagonal entries the node-block kernel takes. It
+// multiplies three entries together (Cᵀ·adj(S)·C); with every diagonal, and
+// so every entry of a positive definite matrix, within 1e±80, and the pivots
+// no smaller than 1e−14 of their diagonal, no product leaves float64's range.
+// Other matrices take the row-by-row kernel, which multiplies only two.
+const nodeRange = 1e80
+
+// moderate reports whether two diagonal entries lie within nodeRange.
+func moderate(a, b float64) bool {
+	return a >= 1/nodeRange && a <= nodeRange && b >= 1/nodeRange && b <= nodeRange
+}
 
 // nodeBlockMin is the smallest order the node-block kernel takes: three
 // nodes, one each way around the middle.
@@ -62,7 +75,7 @@ func pivotBlockOK(s11, det, o1, o2 float64) (ok bool, row int, pivot float64) {
 
 // factorNodes factorizes orig (n even, n ≥ nodeBlockMin, half-bandwidth 3)
 // into d, or returns errNotNodeBlocked, with d spoilt, when orig is not block
-// tridiagonal by nodes.
+// tridiagonal by nodes or has a diagonal entry beyond nodeRange.
 func factorNodes(d, orig []float64, n int) error {
 	nodes := n / 2
 	m := middleNode(n)
@@ -75,7 +88,7 @@ func factorNodes(d, orig []float64, n int) error {
 		if k < m {
 			i := k
 			o := orig[8*i : 8*i+13 : 8*i+13] // node i's rows and the next diagonal block
-			if o[7] != 0 {
+			if o[7] != 0 || !moderate(o[0], o[4]) {
 				return errNotNodeBlocked
 			}
 			det, i11, i12, i22, w11, w12, w21, w22, u11, u12, u22 := eliminate2(s11, s12, s22, o[2], o[3], o[5], o[6])
@@ -90,7 +103,8 @@ func factorNodes(d, orig []float64, n int) error {
 		// The upward node j is coupled to j−1 by B_{j−1}ᵀ.
 		j := nodes - 1 - k
 		o := orig[8*j-8 : 8*j+5 : 8*j+5] // node j−1's rows, then node j's block
-		if o[7] != 0 {
+		// o[7] couples node j−1 to j+1; past the last node it is no entry.
+		if o[7] != 0 && j+1 < nodes || !moderate(o[8], o[12]) {
 			return errNotNodeBlocked
 		}
 		det, i11, i12, i22, w11, w12, w21, w22, u11, u12, u22 := eliminate2(t11, t12, t22, o[2], o[5], o[3], o[6])
@@ -104,6 +118,9 @@ func factorNodes(d, orig []float64, n int) error {
 	}
 	// The middle node takes what both chains left on it.
 	o := orig[8*m : 8*m+5 : 8*m+5]
+	if !moderate(o[0], o[4]) {
+		return errNotNodeBlocked
+	}
 	s11, s12, s22 = o[0]-du11-uu11, o[1]-du12-uu12, o[4]-du22-uu22
 	det := s11*s22 - s12*s12
 	if ok, r, p := pivotBlockOK(s11, det, o[0], o[4]); !ok {

@@ -27,12 +27,14 @@ func twistRow(n int) int { return (n - 3) / 2 }
 // 1/piv, the multipliers and the new pending updates. Plain scalars, so the
 // chains stay in registers.
 func eliminate3(piv, a1, a2, a3, q0, q1, s0, next float64) (inv, l1, l2, l3, nextPiv, p0, p1, p2, nq0, nq1, ns0 float64) {
-	// The next pivot is (its diagonal + q0) − a1²/piv: one division and one
-	// subtraction after this pivot, the sum and a1² being ready before.
-	// 1/piv, a second division, is not on that path.
-	t := a1 * a1 / piv
+	// The next pivot is (its diagonal + q0) − (a1/piv)·a1: a division, a
+	// multiplication and a subtraction after this pivot, the sum being ready
+	// before; never a1², which would overflow or underflow for entries beyond
+	// 1e±154. 1/piv, a second division, is not on that path.
+	l1 = a1 / piv
+	t := l1 * a1
 	inv = 1 / piv
-	l1, l2, l3 = a1*inv, a2*inv, a3*inv
+	l2, l3 = a2*inv, a3*inv
 	return inv, l1, l2, l3, (next + q0) - t, q0 - t, q1 - l1*a2, -l1 * a3, s0 - l2*a2, -l2 * a3, -l3 * a3
 }
 

@@ -234,6 +234,51 @@ func TestNodeBlocksSingular(t *testing.T) {
 	}
 }
 
+// Scaling the matrix by c scales the solution by 1/c: every kernel must keep
+// to that across float64's range, where products of three entries, or the
+// square of one, would overflow or underflow (a review found the node blocks
+// silently wrong at 1e−110 and refusing at 1e+104, the bar kernel at 1e∓160).
+func TestBandLDLScaleInvariance(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(9, 10))
+	cases := []struct {
+		name string
+		a    *SymBand
+	}{
+		{"bar", randomSPDBand(rnd, 21, 1)},
+		{"general band 3", randomSPDBand(rnd, 21, 3)},
+		{"node blocks", randomNodeBand(rnd, 11)},
+	}
+	for _, c := range cases {
+		n := c.a.N
+		b := make([]float64, n)
+		for i := range b {
+			b[i] = 2*rnd.Float64() - 1
+		}
+		var f BandLDL
+		want := make([]float64, n)
+		if err := f.FactorizeSolve(c.a, want, b); err != nil {
+			t.Fatal(err)
+		}
+		for _, scale := range []float64{1e-300, 1e-170, 1e-120, 1e-100, 1e-60, 1e60, 1e100, 1e120, 1e170, 1e300} {
+			scaled := &SymBand{N: n, K: c.a.K, Data: slices.Clone(c.a.Data)}
+			for i := range scaled.Data {
+				scaled.Data[i] *= scale
+			}
+			got := make([]float64, n)
+			if err := f.FactorizeSolve(scaled, got, b); err != nil {
+				t.Errorf("%s scaled by %g: %v", c.name, scale, err)
+				continue
+			}
+			for i := range got {
+				if math.Abs(got[i]*scale-want[i]) > 1e-12*max(1, math.Abs(want[i])) {
+					t.Errorf("%s scaled by %g: x[%d]·scale = %.15g, want %.15g", c.name, scale, i, got[i]*scale, want[i])
+					break
+				}
+			}
+		}
+	}
+}
+
 // The estimate is a lower bound of the true 1-norm condition number and, for
 // these matrices, within a factor 3 of it (Higham reports it is usually
 // within a factor 3; from memory). Truth: gonum mat.Cond(·, 1) on the dense matrix.

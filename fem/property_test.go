@@ -366,32 +366,50 @@ func TestPropertyStiffnessScaling(t *testing.T) {
 	var h headroom
 	kinds := loadKinds{springs: true, selfWeight: true}
 	forRandomModels(t, 4, kinds, func(t *testing.T, rnd *rand.Rand, m *fem.Model) {
-		k := logUniform(rnd, 1e-2, 1e2)
-		stiff := cloneModel(m)
-		for i := range stiff.Segments {
-			stiff.Segments[i].Material.Elastic *= k
-		}
-		for i := range stiff.Supports {
-			for d := range stiff.Supports[i].Stiffness {
-				stiff.Supports[i].Stiffness[d] *= k
-			}
-		}
-		s, r := mustSolveModel(t, m), mustSolveModel(t, stiff)
-		tol := solveTolerance(math.Max(s.Condition, r.Condition))
-		for _, q := range nodeQuantities {
-			got := nodeValues(r, q)
-			if q.nodallyExact() { // the displacements
-				for i := range got {
-					got[i] *= k
-				}
-			}
-			h.check(t, fmt.Sprintf("%s with E×%.4g", q, k), got, nodeValues(s, q), nodeFloor(s, q), tol)
-		}
-		for d := fem.Axial; d <= fem.Rotation; d++ {
-			h.check(t, d.String()+" reactions", reactionComponents(r.Reactions, d), reactionComponents(s.Reactions, d), reactionFloor(s, d), tol)
-		}
+		checkStiffnessScaling(t, &h, m, logUniform(rnd, 1e-2, 1e2))
 	})
 	t.Logf("largest discrepancy: %.3g of its tolerance", h.worst)
+}
+
+// The same at factors far outside any material, where a kernel multiplying
+// three stiffness entries, or squaring one, leaves float64's range: a review
+// found the 2×2 node blocks silently wrong with E of 2e−110 Pa.
+func TestPropertyStiffnessScalingExtreme(t *testing.T) {
+	var h headroom
+	kinds := loadKinds{springs: true, selfWeight: true}
+	factors := []float64{1e-110, 1e-60, 1e60, 1e110}
+	forRandomModels(t, 14, kinds, func(t *testing.T, rnd *rand.Rand, m *fem.Model) {
+		checkStiffnessScaling(t, &h, m, factors[rnd.IntN(len(factors))])
+	})
+	t.Logf("largest discrepancy: %.3g of its tolerance", h.worst)
+}
+
+// checkStiffnessScaling solves m and m with every stiffness times k and
+// compares them as TestPropertyStiffnessScaling says.
+func checkStiffnessScaling(t *testing.T, h *headroom, m *fem.Model, k float64) {
+	stiff := cloneModel(m)
+	for i := range stiff.Segments {
+		stiff.Segments[i].Material.Elastic *= k
+	}
+	for i := range stiff.Supports {
+		for d := range stiff.Supports[i].Stiffness {
+			stiff.Supports[i].Stiffness[d] *= k
+		}
+	}
+	s, r := mustSolveModel(t, m), mustSolveModel(t, stiff)
+	tol := solveTolerance(math.Max(s.Condition, r.Condition))
+	for _, q := range nodeQuantities {
+		got := nodeValues(r, q)
+		if q.nodallyExact() { // the displacements
+			for i := range got {
+				got[i] *= k
+			}
+		}
+		h.check(t, fmt.Sprintf("%s with E×%.4g", q, k), got, nodeValues(s, q), nodeFloor(s, q), tol)
+	}
+	for d := fem.Axial; d <= fem.Rotation; d++ {
+		h.check(t, d.String()+" reactions", reactionComponents(r.Reactions, d), reactionComponents(s.Reactions, d), reactionFloor(s, d), tol)
+	}
 }
 
 // bisect adds the middle of every interval of the sorted nodes x.
