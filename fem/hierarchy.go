@@ -99,6 +99,7 @@ const parallelRefine = 4096
 // goroutines. The cut depends on the mesh only and the two sums are added in
 // one order, so the answer is the same to the bit on any number of cores.
 func refineAll(proto stretchRefiner, stretches []elementData, keys []int) (energy, poison float64) {
+	proto.pointNodes = nil // each copy grows its own, never a shared array
 	jobs := make([]refineJob, len(stretches))
 	r := proto
 	for j := range stretches {
