@@ -346,19 +346,41 @@ func (w *Window) writeProject(path string, then func()) {
 	w.updateTitle()
 	w.setStatus("saved %s", path)
 	// Work in progress is saved as it is, so nothing is lost; say so when
-	// the file would not open again as it stands.
+	// the file would not open again as it stands, before closing the window
+	// or leaving the member for another.
 	if err := storage.Validate(&w.project); err != nil {
-		var le *storage.LoadError
-		if errors.As(err, &le) {
-			le.File = filepath.Base(path)
-		}
-		w.setStatus("saved %s, but it will not open again until the problems listed are fixed", path)
-		dialog.ShowInformation("Saved, but it will not open as it is",
-			"The member was saved, so no work is lost, but "+err.Error()+"\nFix these and save again.", w.win)
+		w.warnUnloadable(path, err, then)
+		return
 	}
 	if then != nil {
 		then()
 	}
+}
+
+// warnUnloadable says that the file just saved at path will not open again
+// (err from storage.Validate). then, when there is a next step, waits for
+// the user to go on; without one the warning just informs.
+func (w *Window) warnUnloadable(path string, err error, then func()) {
+	fix := "Fix it and save again."
+	var le *storage.LoadError
+	if errors.As(err, &le) {
+		le.File = filepath.Base(path)
+		if len(le.Problems) > 1 {
+			fix = "Fix them and save again."
+		}
+	}
+	w.setStatus("saved %s, but it will not open again until the problems listed are fixed", path)
+	const title = "Saved, but it will not open as it is"
+	msg := "The member was saved, so no work is lost, but " + err.Error() + "\n" + fix
+	if then == nil {
+		dialog.ShowInformation(title, msg, w.win)
+		return
+	}
+	dialog.ShowCustomConfirm(title, "Go on anyway", "Stay and fix it", widget.NewLabel(msg), func(goOn bool) {
+		if goOn {
+			then()
+		}
+	}, w.win)
 }
 
 // addRecent puts path at the top of the recent files.

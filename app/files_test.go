@@ -11,6 +11,7 @@ import (
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/driver/desktop"
+	"fyne.io/fyne/v2/test"
 
 	"stave/canvas"
 	"stave/fem"
@@ -63,11 +64,24 @@ func TestSaveWarnsWhenTheFileWouldNotOpen(t *testing.T) {
 	if _, err := storage.Load(path); err == nil {
 		t.Errorf("the saved draft loads; the test needs a member that does not validate")
 	}
-	// A valid member saves without the warning.
+	// Saved on the way to closing or opening another member, the next step
+	// waits for the user: the warning must not vanish with the window.
+	ran := false
+	w.writeProject(path, func() { ran = true })
+	if ran {
+		t.Fatal("the next step ran while the warning that the file will not open was showing")
+	}
+	_, _, buttons, _ := dialogWidgets(t, w)
+	test.Tap(buttonNamed(t, buttons, "Go on anyway"))
+	if !ran {
+		t.Error("going on from the warning did not run the next step")
+	}
+	// A valid member saves without the warning, and goes straight on.
 	w.project = *demoProject(t)
-	w.writeProject(path, nil)
-	if got := w.status.Text; strings.Contains(got, "will not open") {
-		t.Errorf("status after saving a valid member is %q", got)
+	ran = false
+	w.writeProject(path, func() { ran = true })
+	if got := w.status.Text; strings.Contains(got, "will not open") || !ran {
+		t.Errorf("status after saving a valid member is %q; next step ran: %v", got, ran)
 	}
 }
 
