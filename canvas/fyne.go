@@ -29,11 +29,13 @@ func Draw(s *Scene) []fyne.CanvasObject {
 		t := fynecanvas.NewText(it.Text, it.Stroke)
 		t.TextStyle = style
 		// The screen font is a little wider than the one the scene was laid
-		// out with: shrink it to the measured width so labels keep their places.
+		// out with: shrink it to the measured width so labels keep their
+		// places. Fyne measures in steps of size, so a size scaled in
+		// proportion can measure as wide as before: step on until it fits.
 		size := it.Size
 		m := fyne.MeasureText(it.Text, size, style)
-		if m.Width > it.Width && it.Width > 0 {
-			size *= it.Width / m.Width
+		for i := 0; i < 8 && m.Width > it.Width && it.Width > 0; i++ {
+			size = min(size*it.Width/m.Width, size-0.25)
 			m = fyne.MeasureText(it.Text, size, style)
 		}
 		t.TextSize = size

@@ -166,4 +166,20 @@ func TestDrawForFyne(t *testing.T) {
 	if _, _, _, a := img.At(3, int(s.MemberY)).RGBA(); a != 0 {
 		t.Error("the raster background is not transparent")
 	}
+	// Each label fits the width the scene laid it out with, in the screen's
+	// font too: a long bold warning once ran 37 px past its box.
+	s.Items = append(s.Items, Item{Kind: Text, Bold: true, Size: problemSize, Stroke: problemColour,
+		Text:  "free motion: the member can rotate about the support at x = 0.0 m: add a second support or fix one",
+		Width: textWidth("free motion: the member can rotate about the support at x = 0.0 m: add a second support or fix one", problemSize, true)})
+	for _, o := range Draw(s)[2:] {
+		txt := o.(*fynecanvas.Text)
+		for _, it := range s.Items {
+			if it.Kind == Text && it.Text == txt.Text {
+				if got := fyne.MeasureText(txt.Text, txt.TextSize, txt.TextStyle).Width; got > it.Width+0.5 {
+					t.Errorf("label %q is %.1f px wide on screen, laid out for %.1f", it.Text, got, it.Width)
+				}
+				break
+			}
+		}
+	}
 }

@@ -522,6 +522,9 @@ func (b *builder) problem(lay layoutBands) {
 	lines := wrap(b.in.Problem, problemSize, true, b.v.Width-60)
 	h := textHeight(problemSize)
 	y := lay.top + 30
+	if b.in.Unreliable { // below the "UNRELIABLE RESULTS" line, not over it
+		y += textHeight(labelSize) + 4
+	}
 	wmax := float32(0)
 	for _, ln := range lines {
 		wmax = max(wmax, textWidth(ln, problemSize, true))
