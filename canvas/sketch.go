@@ -644,6 +644,9 @@ func (b *builder) deformed(lay layoutBands) {
 	if peak.value == 0 {
 		return
 	}
+	// Labelled where the curve has zero slope, as the results table says,
+	// not at the nearest pixel column's sample.
+	peak.x, peak.value = b.in.Solution.DeflectionExtremum(peak.x, peak.value > 0)
 	band := float64(lay.sketchBottom - lay.top)
 	mag := b.in.Magnification
 	if mag <= 0 {

@@ -1,11 +1,14 @@
 package canvas
 
 import (
+	"fmt"
+	"math"
 	"regexp"
 	"strings"
 	"testing"
 
 	"stave/fem"
+	"stave/fem/units"
 )
 
 // texts lists the text items of a scene with their boxes.
@@ -108,6 +111,37 @@ func TestSettlementMarksAndRoundOff(t *testing.T) {
 	for text := range texts(s) {
 		if roundOff.MatchString(text) {
 			t.Errorf("label %q shows a round-off value", text)
+		}
+	}
+}
+
+// The drawing labels the largest deflection where the results table puts
+// it, at the finite element curve's zero slope, not at a pixel column's
+// sample: an export once said 1.405 m where the sheet said 1.420 m.
+func TestDeflectionLabelMatchesSummary(t *testing.T) {
+	for _, elements := range []int{7, 24, 3000} {
+		m := demoModel(elements)
+		in := solved(t, m)
+		v := NewView(1200, 900)
+		v.Fit(m)
+		s := Build(in, v)
+		var peak fem.Extreme
+		for _, e := range fem.Summarize(in.Solution, nil).Extremes {
+			if e.Quantity == "Deflection" {
+				peak = e
+			}
+		}
+		x, w := peak.XMin, peak.Min
+		if math.Abs(peak.Max) > math.Abs(peak.Min) {
+			x, w = peak.XMax, peak.Max
+		}
+		want := fmt.Sprintf("w %s at %s", units.SI.Format(units.Deflection, w), units.SI.Format(units.Position, x))
+		found := false
+		for _, it := range s.Items {
+			found = found || it.Kind == Text && it.Text == want
+		}
+		if !found {
+			t.Errorf("%d elements: no label %q", elements, want)
 		}
 	}
 }

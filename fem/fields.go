@@ -1,6 +1,9 @@
 package fem
 
-import "sort"
+import (
+	"math"
+	"sort"
+)
 
 // At evaluates the finite element fields at x from the interpolation of the
 // element that holds x. At a node, side picks the element to the Left or to
@@ -88,4 +91,66 @@ func (s *Solution) InElement(e int, x float64) Fields {
 	f.BendingStress = f.BendingMoment * sec.fibre / sec.secondMoment
 	f.CombinedStress = extremeFibreStress(f.AxialStress, f.BendingStress)
 	return f
+}
+
+// DeflectionExtremum refines an extreme of the finite element deflection
+// found by sampling near x: among x itself and the points of the element
+// holding x and of its two neighbours where that element's cubic has zero
+// slope, it returns the one with the largest deflection (the smallest when
+// largest is false). Two samplings of a flat peak then report the same
+// place, not each its own sample.
+func (s *Solution) DeflectionExtremum(x float64, largest bool) (at, w float64) {
+	if s == nil || len(s.fields) == 0 {
+		return x, 0
+	}
+	better := func(v, than float64) bool { return largest && v > than || !largest && v < than }
+	e := s.elementAt(x, Right)
+	at, w = x, s.InElement(e, x).Deflection
+	for k := max(e-1, 0); k <= min(e+1, len(s.fields)-1); k++ {
+		for _, xi := range s.stationaryPoints(k) {
+			el := s.Mesh.Elements[k]
+			p := el.Start + xi*(el.End-el.Start)
+			if v := s.InElement(k, p).Deflection; better(v, w) {
+				at, w = p, v
+			}
+		}
+	}
+	return at, w
+}
+
+// stationaryPoints returns the ξ in (0, 1) where the Hermite cubic of
+// element e has zero slope: dw/dξ = c2·ξ² + c1·ξ + c0 from the derivatives of
+// the shape functions of hermiteValues.
+func (s *Solution) stationaryPoints(e int) []float64 {
+	h := s.Mesh.Elements[e].End - s.Mesh.Elements[e].Start
+	a, b := s.Displacement[e], s.Displacement[e+1]
+	wa, ta, wb, tb := a[Transverse], h*a[Rotation], b[Transverse], h*b[Rotation]
+	c2 := 6*wa + 3*ta - 6*wb + 3*tb
+	c1 := -6*wa - 4*ta + 6*wb - 2*tb
+	c0 := ta
+	var roots []float64
+	switch {
+	case c2 == 0 && c1 == 0:
+		return nil
+	case c2 == 0:
+		roots = append(roots, -c0/c1)
+	default:
+		d := c1*c1 - 4*c2*c0
+		if d < 0 {
+			return nil
+		}
+		// The root free of cancellation, then the other from the product.
+		q := -0.5 * (c1 + math.Copysign(math.Sqrt(d), c1))
+		roots = append(roots, q/c2)
+		if q != 0 {
+			roots = append(roots, c0/q)
+		}
+	}
+	out := roots[:0]
+	for _, r := range roots {
+		if r > 0 && r < 1 {
+			out = append(out, r)
+		}
+	}
+	return out
 }

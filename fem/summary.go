@@ -114,6 +114,13 @@ func extremes(s *Solution) []Extreme {
 			}
 		}
 	}
+	// The deflection peaks inside elements, where their cubic has zero slope.
+	for i, q := range summaryQuantities {
+		if q.name == "Deflection" {
+			out[i].XMax, out[i].Max = s.DeflectionExtremum(out[i].XMax, true)
+			out[i].XMin, out[i].Min = s.DeflectionExtremum(out[i].XMin, false)
+		}
+	}
 	return out
 }
 

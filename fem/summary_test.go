@@ -58,3 +58,35 @@ func TestSummarizeSimplySupportedUniform(t *testing.T) {
 		t.Errorf("mesh %+v", sum.Mesh)
 	}
 }
+
+// The deflection's extreme is reported where the finite element curve has
+// zero slope, not at the nearest sample. A simply supported beam with one
+// point load P at a from the left (b = L − a < a) deflects most at
+// x = √((L² − b²)/3), by P·b·(L² − b²)^(3/2)/(9√3·L·EI) (Gere & Goodno,
+// Mechanics of Materials, table of beam deflections, from memory). Between
+// supports and load the exact curve is cubic, so Hermite elements hold it
+// exactly, inside the elements too.
+func TestDeflectionExtremeAtZeroSlope(t *testing.T) {
+	const a = 4.0
+	b := testL - a
+	m := testModel(Support{X: 0, Kind: Pinned}, Support{X: testL, Kind: Roller})
+	m.PointLoads = []PointLoad{{X: a, Transverse: testP}}
+	m.Mesh.Elements = 7
+	s := mustSolve(t, m)
+	wantX := math.Sqrt((testL*testL - b*b) / 3)
+	wantW := testP * b * math.Pow(testL*testL-b*b, 1.5) / (9 * math.Sqrt(3) * testL * testE * testI)
+	for _, e := range Summarize(s, nil).Extremes {
+		if e.Quantity != "Deflection" {
+			continue
+		}
+		if math.Abs(e.XMin-wantX) > 1e-9 || relErr(e.Min, wantW) > 1e-9 {
+			t.Errorf("largest deflection %.12g m at x = %.12g m, want %.12g m at %.12g m", e.Min, e.XMin, wantW, wantX)
+		}
+	}
+	// From any sample near the peak, DeflectionExtremum finds the same place.
+	for _, x := range []float64{wantX - 0.3, wantX - 0.05, wantX + 0.2} {
+		if at, w := s.DeflectionExtremum(x, false); math.Abs(at-wantX) > 1e-9 || relErr(w, wantW) > 1e-9 {
+			t.Errorf("from x = %g m: %.12g m at %.12g m, want %.12g m at %.12g m", x, w, at, wantW, wantX)
+		}
+	}
+}
