@@ -17,48 +17,40 @@ func twistRow1(n int) int { return (n - 1) / 2 }
 func factorTwisted1(d, orig []float64, n int, x, b []float64) error {
 	t := twistRow1(n)
 	rhs := b != nil
-	// What the last pivot of each chain takes off the next diagonal, a²/pivot,
+	// What the last pivot of each chain takes off the next diagonal,
 	// and the forward substitution's y with the multiplier that passes it on.
 	var down, up float64
 	var yd, ld, yu, lu float64
 	for i := range n - 1 - t {
 		if i < t {
 			o := orig[2*i : 2*i+2 : 2*i+2]
-			piv := o[0] - down
-			if !pivotOK(piv, o[0]) {
+			piv, inv, l, next, ok := eliminate1(o[0], down, o[1])
+			if !ok {
 				return &PivotError{Row: i, Pivot: piv, Diagonal: o[0]}
 			}
-			// The multiplier a/piv, then a times it: never a², which would
-			// overflow or underflow for entries beyond 1e±154.
-			a := o[1]
-			l := a / piv
-			down = l * a
-			inv := 1 / piv
+			down = next
 			r := d[2*i : 2*i+2 : 2*i+2]
 			r[0], r[1] = inv, l
 			if rhs {
 				y := b[i] - ld*yd
 				x[i] = y * inv
-				yd, ld = y, r[1]
+				yd, ld = y, l
 			}
 		}
 		// The upward row j: its link A[j−1][j] and its diagonal.
 		j := n - 1 - i
 		o := orig[2*j-1 : 2*j+1 : 2*j+1]
-		piv := o[1] - up
-		if !pivotOK(piv, o[1]) {
+		piv, inv, l, next, ok := eliminate1(o[1], up, o[0])
+		if !ok {
 			return &PivotError{Row: j, Pivot: piv, Diagonal: o[1]}
 		}
-		a := o[0]
-		l := a / piv
-		up = l * a
-		inv := 1 / piv
+		up = next
 		r := d[2*j-1 : 2*j+1 : 2*j+1]
 		r[0], r[1] = l, inv
 		if rhs {
 			z := b[j] - lu*yu
 			x[j] = z * inv
-			yu, lu = z, r[0]
+			yu, lu = z, l
 		}
 	}
 	piv := orig[2*t] - down - up
@@ -71,6 +63,17 @@ func factorTwisted1(d, orig []float64, n int, x, b []float64) error {
 		backwardTwisted1(d, x, n)
 	}
 	return nil
+}
+
+// eliminate1 eliminates one row of a chain: its diagonal less what the row
+// before took off it, and its link a to the next row. It returns the pivot,
+// 1/pivot, the multiplier a/pivot and what the next row loses, (a/pivot)·a,
+// never a², which would overflow or underflow for entries beyond 1e±154;
+// ok is false when the pivot fails pivotOK.
+func eliminate1(diag, take, a float64) (piv, inv, l, next float64, ok bool) {
+	piv = diag - take
+	l = a / piv
+	return piv, 1 / piv, l, l * a, pivotOK(piv, diag)
 }
 
 // solveTwisted1 solves with a factorization from factorTwisted1; x and b may
