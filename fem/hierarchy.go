@@ -143,26 +143,24 @@ func (r *stretchRefiner) cut(jobs []refineJob, stretches []elementData, most int
 		cutJob(refineJob{stretch: j.stretch, lo: j.lo, hi: m, c: left})
 		cutJob(refineJob{stretch: j.stretch, lo: m, hi: j.hi, c: right})
 	}
-	current := -1
-	for _, j := range jobs {
-		if j.stretch != current {
-			r.setup(&stretches[j.stretch])
-			current = j.stretch
-		}
-		cutJob(j)
-	}
+	r.each(jobs, stretches, cutJob)
 	return out
 }
 
 // run refines the jobs in order.
 func (r *stretchRefiner) run(jobs []refineJob, stretches []elementData) {
+	r.each(jobs, stretches, func(j refineJob) { r.split(j.lo, j.hi, j.c) })
+}
+
+// each calls do for the jobs in order, with r set up for each job's stretch.
+func (r *stretchRefiner) each(jobs []refineJob, stretches []elementData, do func(refineJob)) {
 	current := -1
 	for _, j := range jobs {
 		if j.stretch != current {
 			r.setup(&stretches[j.stretch])
 			current = j.stretch
 		}
-		r.split(j.lo, j.hi, j.c)
+		do(j)
 	}
 }
 
