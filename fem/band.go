@@ -115,33 +115,33 @@ type BandLDL struct {
 // returns a *PivotError, and leaves the receiver unusable, when a pivot is not
 // positive enough: a is then singular, not positive definite, or too badly
 // conditioned to solve in float64.
-func (f *BandLDL) Factorize(a *SymBand) error { return f.factorize(a, nil, nil) }
+func (f *BandLDL) Factorize(a *SymBand) error {
+	_, err := f.factorize(a, nil, nil)
+	return err
+}
 
 // FactorizeSolve is Factorize followed by SolveTo(x, b), with the forward
-// substitution done in the factorization's sweep for half-bandwidth 1: one
-// pass over the factor less. (In the beam's kernel the extra chains would
-// not fit the processor's registers; it solves after factorizing.) x and b
-// may be the same slice. On error x holds no solution.
+// substitution done in the factorization's sweep by the bar's and the
+// node-block kernels: one pass over the factor less. x and b may be the same
+// slice. On error x holds no solution.
 func (f *BandLDL) FactorizeSolve(a *SymBand, x, b []float64) error {
 	if len(x) != a.N || len(b) != a.N {
 		return fmt.Errorf("fem: solve with vectors of length %d and %d for a matrix of order %d", len(x), len(b), a.N)
 	}
-	if err := f.factorize(a, x, b); err != nil {
+	solved, err := f.factorize(a, x, b)
+	if err != nil || solved {
 		return err
-	}
-	if f.kernel == twisted1 {
-		return nil
 	}
 	return f.SolveTo(x, b)
 }
 
-// factorize is Factorize; with b not nil the half-bandwidth-1 kernel also
-// solves into x.
-func (f *BandLDL) factorize(a *SymBand, x, b []float64) error {
+// factorize is Factorize; with b not nil the bar's and the node-block
+// kernels also solve into x, and solved says whether they did.
+func (f *BandLDL) factorize(a *SymBand, x, b []float64) (solved bool, err error) {
 	n, k := a.N, a.K
 	w := k + 1
 	if n < 0 || k < 0 || len(a.Data) < n*w {
-		return errors.New("fem: band matrix storage is smaller than its size")
+		return false, errors.New("fem: band matrix storage is smaller than its size")
 	}
 	f.n, f.k, f.kernel = 0, 0, generalRows
 	if cap(f.f) < n*w {
@@ -151,14 +151,21 @@ func (f *BandLDL) factorize(a *SymBand, x, b []float64) error {
 	d, orig := f.f, a.Data
 	// The unrolled kernels read a and write the factor in one pass; the
 	// general loop works in place on a copy.
-	var err error
 	switch {
 	case k == 1 && n >= 1:
 		f.kernel, err = twisted1, factorTwisted1(d, orig, n, x, b)
+		solved = b != nil
 	case k == 3 && n >= nodeBlockMin && n%2 == 0:
-		f.kernel, err = nodeBlocks, factorNodes(d, orig, n)
+		// The node kernel can find midway that the band is not block
+		// tridiagonal; it solves only when b survives its writes to x.
+		if b != nil && &x[0] == &b[0] {
+			x, b = nil, nil
+		}
+		f.kernel, err = nodeBlocks, factorNodes(d, orig, n, x, b)
+		solved = b != nil
 		if err == errNotNodeBlocked {
 			f.kernel, err = twisted3, factorTwisted3(d, orig, n)
+			solved = false
 		}
 	case k == 3 && n >= twistedMin:
 		f.kernel, err = twisted3, factorTwisted3(d, orig, n)
@@ -168,10 +175,10 @@ func (f *BandLDL) factorize(a *SymBand, x, b []float64) error {
 	}
 	if err != nil {
 		f.kernel = generalRows
-		return err
+		return false, err
 	}
 	f.n, f.k = n, k
-	return nil
+	return solved, nil
 }
 
 // pivotOK is the singularity test of one pivot against its original diagonal.

@@ -16,7 +16,8 @@ import "errors"
 // one T_{i−1} = A_{i−1} − B_{i−1}·T_i⁻¹·B_{i−1}ᵀ. The factor keeps, in the 8
 // entries of node i's two rows: the inverse of its pivot block (3 entries of
 // the symmetric 2×2), then the 2×2 multiplier S_i⁻¹·B_i (downward) or
-// T_i⁻¹·B_{i−1}ᵀ (upward), by rows.
+// T_i⁻¹·B_{i−1}ᵀ (upward), by rows. FactorizeSolve runs the forward
+// substitution in the same sweep, carrying Bᵀ·S⁻¹·z to the next node.
 
 // errNotNodeBlocked says the node-block kernel does not apply: the matrix
 // couples a rotation to the node after next, or a diagonal entry lies outside
@@ -42,22 +43,38 @@ const nodeBlockMin = 6
 // middleNode is the node an n×n node-blocked matrix eliminates last.
 func middleNode(n int) int { return (n/2 - 1) / 2 }
 
-// eliminate2 eliminates one pivot block S = [s11 s12; s12 s22] coupled to
-// the next node by C (row-major c11 c12; c21 c22, the next node's unknowns in
-// its columns). It returns S⁻¹, the multiplier W = S⁻¹·C and what the next
-// node's block loses, Cᵀ·S⁻¹·C, besides the determinant for the caller's
-// test. The next block waits for one division and one multiplication after
-// S: Cᵀ·adj(S)·C is formed beside the division.
-func eliminate2(s11, s12, s22, c11, c12, c21, c22 float64) (det, i11, i12, i22, w11, w12, w21, w22, u11, u12, u22 float64) {
-	det = s11*s22 - s12*s12
-	// adj(S)·C and Cᵀ·adj(S)·C, free of the division.
-	a11, a12 := s22*c11-s12*c21, s22*c12-s12*c22
-	a21, a22 := s11*c21-s12*c11, s11*c22-s12*c12
-	p11, p12, p22 := c11*a11+c21*a21, c11*a12+c21*a22, c12*a12+c22*a22
-	inv := 1 / det
-	return det, s22 * inv, -s12 * inv, s11 * inv,
-		a11 * inv, a12 * inv, a21 * inv, a22 * inv,
-		p11 * inv, p12 * inv, p22 * inv
+// The elimination of one pivot block S = [s11 s12; s12 s22], coupled to the
+// next node by C (row-major c11 c12; c21 c22, the next node's unknowns in
+// its columns), is split into helpers small enough for the compiler to
+// inline: a call would spill both chains' state at every node.
+//
+// pivotAdj returns det S and adj(S)·C, both free of the division.
+func pivotAdj(s11, s12, s22, c11, c12, c21, c22 float64) (det, a11, a12, a21, a22 float64) {
+	return s11*s22 - s12*s12, s22*c11 - s12*c21, s22*c12 - s12*c22, s11*c21 - s12*c11, s11*c22 - s12*c12
+}
+
+// congruence returns the symmetric Cᵀ·A for A = adj(S)·C: det S times what
+// the next node's block loses.
+func congruence(c11, c12, c21, c22, a11, a12, a21, a22 float64) (p11, p12, p22 float64) {
+	return c11*a11 + c21*a21, c11*a12 + c21*a22, c12*a12 + c22*a22
+}
+
+// storeNode writes a node's factor, S⁻¹ and W = S⁻¹·C, from adj(S)·C and
+// inv = 1/det S, and returns S⁻¹.
+func storeNode(f []float64, inv, s11, s12, s22, a11, a12, a21, a22 float64) (i11, i12, i22 float64) {
+	i11, i12, i22 = s22*inv, -s12*inv, s11*inv
+	f[0], f[1], f[2], f[3], f[4], f[5], f[6] = i11, i12, i22, a11*inv, a12*inv, a21*inv, a22*inv
+	return i11, i12, i22
+}
+
+// forwardStep is one node of a forward substitution riding in the
+// factorization: z = b − g, g what the node before took off, x = S⁻¹·z,
+// and what this node takes off the next, Cᵀ·x = Wᵀ·z.
+func forwardStep(b, x []float64, i11, i12, i22, c11, c12, c21, c22, g1, g2 float64) (float64, float64) {
+	z1, z2 := b[0]-g1, b[1]-g2
+	a1, a2 := i11*z1+i12*z2, i12*z1+i22*z2
+	x[0], x[1] = a1, a2
+	return c11*a1 + c21*a2, c12*a1 + c22*a2
 }
 
 // pivotBlockOK tests a 2×2 pivot block as the row-by-row factorization would
@@ -75,15 +92,20 @@ func pivotBlockOK(s11, det, o1, o2 float64) (ok bool, row int, pivot float64) {
 
 // factorNodes factorizes orig (n even, n ≥ nodeBlockMin, half-bandwidth 3)
 // into d, or returns errNotNodeBlocked, with d spoilt, when orig is not block
-// tridiagonal by nodes or has a diagonal entry beyond nodeRange.
-func factorNodes(d, orig []float64, n int) error {
+// tridiagonal by nodes or has a diagonal entry beyond nodeRange. With b not
+// nil it solves into x as well, the forward substitution riding in the
+// factorization's sweep.
+func factorNodes(d, orig []float64, n int, x, b []float64) error {
+	rhs := b != nil
 	nodes := n / 2
 	m := middleNode(n)
-	// The next pivot block each way, and what the last step took off it.
+	// The next pivot block each way.
 	s11, s12, s22 := orig[0], orig[1], orig[4]
 	e := 8 * (nodes - 1)
 	t11, t12, t22 := orig[e], orig[e+1], orig[e+4]
-	var du11, du12, du22, uu11, uu12, uu22 float64
+	// What the forward substitution's last node takes off the next one's
+	// right-hand side, down and up.
+	var g1, g2, h1, h2 float64
 	for k := range nodes - 1 - m {
 		if k < m {
 			i := k
@@ -91,14 +113,18 @@ func factorNodes(d, orig []float64, n int) error {
 			if o[7] != 0 || !moderate(o[0], o[4]) {
 				return errNotNodeBlocked
 			}
-			det, i11, i12, i22, w11, w12, w21, w22, u11, u12, u22 := eliminate2(s11, s12, s22, o[2], o[3], o[5], o[6])
+			c11, c12, c21, c22 := o[2], o[3], o[5], o[6]
+			det, a11, a12, a21, a22 := pivotAdj(s11, s12, s22, c11, c12, c21, c22)
+			p11, p12, p22 := congruence(c11, c12, c21, c22, a11, a12, a21, a22)
+			inv := 1 / det
 			if ok, r, p := pivotBlockOK(s11, det, o[0], o[4]); !ok {
 				return &PivotError{Row: 2*i + r, Pivot: p, Diagonal: o[4*r]}
 			}
-			f := d[8*i : 8*i+8 : 8*i+8]
-			f[0], f[1], f[2], f[3], f[4], f[5], f[6] = i11, i12, i22, w11, w12, w21, w22
-			du11, du12, du22 = u11, u12, u22
-			s11, s12, s22 = o[8]-u11, o[9]-u12, o[12]-u22
+			i11, i12, i22 := storeNode(d[8*i:8*i+8:8*i+8], inv, s11, s12, s22, a11, a12, a21, a22)
+			s11, s12, s22 = o[8]-p11*inv, o[9]-p12*inv, o[12]-p22*inv
+			if rhs {
+				g1, g2 = forwardStep(b[2*i:2*i+2:2*i+2], x[2*i:2*i+2:2*i+2], i11, i12, i22, c11, c12, c21, c22, g1, g2)
+			}
 		}
 		// The upward node j is coupled to j−1 by B_{j−1}ᵀ.
 		j := nodes - 1 - k
@@ -107,21 +133,26 @@ func factorNodes(d, orig []float64, n int) error {
 		if o[7] != 0 && j+1 < nodes || !moderate(o[8], o[12]) {
 			return errNotNodeBlocked
 		}
-		det, i11, i12, i22, w11, w12, w21, w22, u11, u12, u22 := eliminate2(t11, t12, t22, o[2], o[5], o[3], o[6])
+		c11, c12, c21, c22 := o[2], o[5], o[3], o[6]
+		det, a11, a12, a21, a22 := pivotAdj(t11, t12, t22, c11, c12, c21, c22)
+		p11, p12, p22 := congruence(c11, c12, c21, c22, a11, a12, a21, a22)
+		inv := 1 / det
 		if ok, r, p := pivotBlockOK(t11, det, o[8], o[12]); !ok {
 			return &PivotError{Row: 2*j + r, Pivot: p, Diagonal: o[8+4*r]}
 		}
-		f := d[8*j : 8*j+8 : 8*j+8]
-		f[0], f[1], f[2], f[3], f[4], f[5], f[6] = i11, i12, i22, w11, w12, w21, w22
-		uu11, uu12, uu22 = u11, u12, u22
-		t11, t12, t22 = o[0]-u11, o[1]-u12, o[4]-u22
+		i11, i12, i22 := storeNode(d[8*j:8*j+8:8*j+8], inv, t11, t12, t22, a11, a12, a21, a22)
+		t11, t12, t22 = o[0]-p11*inv, o[1]-p12*inv, o[4]-p22*inv
+		if rhs {
+			h1, h2 = forwardStep(b[2*j:2*j+2:2*j+2], x[2*j:2*j+2:2*j+2], i11, i12, i22, c11, c12, c21, c22, h1, h2)
+		}
 	}
-	// The middle node takes what both chains left on it.
+	// The middle node takes what both chains took off it: each of s and t
+	// is its block less one chain's part.
 	o := orig[8*m : 8*m+5 : 8*m+5]
 	if !moderate(o[0], o[4]) {
 		return errNotNodeBlocked
 	}
-	s11, s12, s22 = o[0]-du11-uu11, o[1]-du12-uu12, o[4]-du22-uu22
+	s11, s12, s22 = s11+t11-o[0], s12+t12-o[1], s22+t22-o[4]
 	det := s11*s22 - s12*s12
 	if ok, r, p := pivotBlockOK(s11, det, o[0], o[4]); !ok {
 		return &PivotError{Row: 2*m + r, Pivot: p, Diagonal: o[4*r]}
@@ -129,6 +160,12 @@ func factorNodes(d, orig []float64, n int) error {
 	inv := 1 / det
 	f := d[8*m : 8*m+8 : 8*m+8]
 	f[0], f[1], f[2] = s22*inv, -s12*inv, s11*inv
+	if rhs {
+		bb := b[2*m : 2*m+2 : 2*m+2]
+		z1, z2 := bb[0]-g1-h1, bb[1]-g2-h2
+		x[2*m], x[2*m+1] = f[0]*z1+f[1]*z2, f[1]*z1+f[2]*z2
+		backwardNodes(d, x, n)
+	}
 	return nil
 }
 
@@ -159,8 +196,16 @@ func solveNodes(d, x, b []float64, n int) {
 	z2 := bb[1] - (p12*y1 + p22*y2) - (q12*v1 + q22*v2)
 	a1, a2 := f[0]*z1+f[1]*z2, f[1]*z1+f[2]*z2
 	x[2*m], x[2*m+1] = a1, a2
-	// Backward, from the middle outwards: x_i −= W_i·x_{i+1} below,
-	// x_j −= V_j·x_{j−1} above.
+	backwardNodes(d, x, n)
+}
+
+// backwardNodes is the back substitution of solveNodes, from the middle node
+// outwards, on the forward solution in x: x_i −= W_i·x_{i+1} below,
+// x_j −= V_j·x_{j−1} above.
+func backwardNodes(d, x []float64, n int) {
+	nodes := n / 2
+	m := middleNode(n)
+	a1, a2 := x[2*m], x[2*m+1]
 	c1, c2 := a1, a2
 	for k := range nodes - 1 - m {
 		if k < m {
