@@ -123,7 +123,7 @@ func (f *BandLDL) Factorize(a *SymBand) error {
 // FactorizeSolve is Factorize followed by SolveTo(x, b), with the forward
 // substitution done in the factorization's sweep by the bar's and the
 // node-block kernels: one pass over the factor less. x and b may be the same
-// slice. On error x holds no solution.
+// slice but must not overlap otherwise. On error x holds no solution.
 func (f *BandLDL) FactorizeSolve(a *SymBand, x, b []float64) error {
 	if len(x) != a.N || len(b) != a.N {
 		return fmt.Errorf("fem: solve with vectors of length %d and %d for a matrix of order %d", len(x), len(b), a.N)
@@ -217,7 +217,7 @@ func factorRows(d, orig []float64, n, k int) error {
 }
 
 // SolveTo solves A·x = b into dst using the factorization; dst and b may be
-// the same slice.
+// the same slice but must not overlap otherwise.
 func (f *BandLDL) SolveTo(dst, b []float64) error {
 	n, k := f.n, f.k
 	if len(dst) != n || len(b) != n {

@@ -17,7 +17,8 @@ import "errors"
 // entries of node i's two rows: the inverse of its pivot block (3 entries of
 // the symmetric 2×2), then the 2×2 multiplier S_i⁻¹·B_i (downward) or
 // T_i⁻¹·B_{i−1}ᵀ (upward), by rows. FactorizeSolve runs the forward
-// substitution in the same sweep, carrying Bᵀ·S⁻¹·z to the next node.
+// substitution in the same sweep, carrying the multiplier's Wᵀ·z (Vᵀ·z
+// upwards) to the next node, as SolveTo does.
 
 // errNotNodeBlocked says the node-block kernel does not apply: the matrix
 // couples a rotation to the node after next, or a diagonal entry lies outside
@@ -60,21 +61,19 @@ func congruence(c11, c12, c21, c22, a11, a12, a21, a22 float64) (p11, p12, p22 f
 }
 
 // storeNode writes a node's factor, S⁻¹ and W = S⁻¹·C, from adj(S)·C and
-// inv = 1/det S, and returns S⁻¹.
-func storeNode(f []float64, inv, s11, s12, s22, a11, a12, a21, a22 float64) (i11, i12, i22 float64) {
-	i11, i12, i22 = s22*inv, -s12*inv, s11*inv
-	f[0], f[1], f[2], f[3], f[4], f[5], f[6] = i11, i12, i22, a11*inv, a12*inv, a21*inv, a22*inv
-	return i11, i12, i22
+// inv = 1/det S.
+func storeNode(f []float64, inv, s11, s12, s22, a11, a12, a21, a22 float64) {
+	f[0], f[1], f[2], f[3], f[4], f[5], f[6] = s22*inv, -s12*inv, s11*inv, a11*inv, a12*inv, a21*inv, a22*inv
 }
 
-// forwardStep is one node of a forward substitution riding in the
-// factorization: z = b − g, g what the node before took off, x = S⁻¹·z,
-// and what this node takes off the next, Cᵀ·x = Wᵀ·z.
-func forwardStep(b, x []float64, i11, i12, i22, c11, c12, c21, c22, g1, g2 float64) (float64, float64) {
+// forwardStep is one node of the forward substitution, in the
+// factorization's sweep or after it: z = b − g, g what the node before took off, x = S⁻¹·z from
+// the node's factor f, and what this node takes off the next, Wᵀ·z, in the
+// arithmetic solveNodes uses on the stored factor.
+func forwardStep(f, b, x []float64, g1, g2 float64) (float64, float64) {
 	z1, z2 := b[0]-g1, b[1]-g2
-	a1, a2 := i11*z1+i12*z2, i12*z1+i22*z2
-	x[0], x[1] = a1, a2
-	return c11*a1 + c21*a2, c12*a1 + c22*a2
+	x[0], x[1] = f[0]*z1+f[1]*z2, f[1]*z1+f[2]*z2
+	return f[3]*z1 + f[5]*z2, f[4]*z1 + f[6]*z2
 }
 
 // pivotBlockOK tests a 2×2 pivot block as the row-by-row factorization would
@@ -120,10 +119,11 @@ func factorNodes(d, orig []float64, n int, x, b []float64) error {
 			if ok, r, p := pivotBlockOK(s11, det, o[0], o[4]); !ok {
 				return &PivotError{Row: 2*i + r, Pivot: p, Diagonal: o[4*r]}
 			}
-			i11, i12, i22 := storeNode(d[8*i:8*i+8:8*i+8], inv, s11, s12, s22, a11, a12, a21, a22)
+			f := d[8*i : 8*i+8 : 8*i+8]
+			storeNode(f, inv, s11, s12, s22, a11, a12, a21, a22)
 			s11, s12, s22 = o[8]-p11*inv, o[9]-p12*inv, o[12]-p22*inv
 			if rhs {
-				g1, g2 = forwardStep(b[2*i:2*i+2:2*i+2], x[2*i:2*i+2:2*i+2], i11, i12, i22, c11, c12, c21, c22, g1, g2)
+				g1, g2 = forwardStep(f, b[2*i:2*i+2:2*i+2], x[2*i:2*i+2:2*i+2], g1, g2)
 			}
 		}
 		// The upward node j is coupled to j−1 by B_{j−1}ᵀ.
@@ -140,10 +140,11 @@ func factorNodes(d, orig []float64, n int, x, b []float64) error {
 		if ok, r, p := pivotBlockOK(t11, det, o[8], o[12]); !ok {
 			return &PivotError{Row: 2*j + r, Pivot: p, Diagonal: o[8+4*r]}
 		}
-		i11, i12, i22 := storeNode(d[8*j:8*j+8:8*j+8], inv, t11, t12, t22, a11, a12, a21, a22)
+		f := d[8*j : 8*j+8 : 8*j+8]
+		storeNode(f, inv, t11, t12, t22, a11, a12, a21, a22)
 		t11, t12, t22 = o[0]-p11*inv, o[1]-p12*inv, o[4]-p22*inv
 		if rhs {
-			h1, h2 = forwardStep(b[2*j:2*j+2:2*j+2], x[2*j:2*j+2:2*j+2], i11, i12, i22, c11, c12, c21, c22, h1, h2)
+			h1, h2 = forwardStep(f, b[2*j:2*j+2:2*j+2], x[2*j:2*j+2:2*j+2], h1, h2)
 		}
 	}
 	// The middle node takes what both chains took off it: each of s and t
@@ -161,41 +162,37 @@ func factorNodes(d, orig []float64, n int, x, b []float64) error {
 	f := d[8*m : 8*m+8 : 8*m+8]
 	f[0], f[1], f[2] = s22*inv, -s12*inv, s11*inv
 	if rhs {
-		bb := b[2*m : 2*m+2 : 2*m+2]
-		z1, z2 := bb[0]-g1-h1, bb[1]-g2-h2
-		x[2*m], x[2*m+1] = f[0]*z1+f[1]*z2, f[1]*z1+f[2]*z2
-		backwardNodes(d, x, n)
+		finishNodes(d, x, b, n, g1, g2, h1, h2)
 	}
 	return nil
 }
 
 // solveNodes solves with a factorization from factorNodes; x and b may be
-// the same slice.
+// the same slice. It is the factorization's own forward substitution
+// (forwardStep) and back substitution, on the stored factor.
 func solveNodes(d, x, b []float64, n int) {
 	nodes := n / 2
 	m := middleNode(n)
-	// Forward: z carried down from node i and up from node j, with the
-	// multiplier that passes it to the next node.
-	var y1, y2, v1, v2 float64                         // down: z; up: z
-	var p11, p12, p21, p22, q11, q12, q21, q22 float64 // the multipliers, W and V
+	var g1, g2, h1, h2 float64 // what the last node each way takes off the next
 	for k := range nodes - 1 - m {
 		if k < m {
 			i := k
-			f := d[8*i : 8*i+8 : 8*i+8]
-			y1, y2 = forwardNode(f, b[2*i:2*i+2:2*i+2], x[2*i:2*i+2:2*i+2], p11, p12, p21, p22, y1, y2)
-			p11, p12, p21, p22 = f[3], f[4], f[5], f[6]
+			g1, g2 = forwardStep(d[8*i:8*i+8:8*i+8], b[2*i:2*i+2:2*i+2], x[2*i:2*i+2:2*i+2], g1, g2)
 		}
 		j := nodes - 1 - k
-		f := d[8*j : 8*j+8 : 8*j+8]
-		v1, v2 = forwardNode(f, b[2*j:2*j+2:2*j+2], x[2*j:2*j+2:2*j+2], q11, q12, q21, q22, v1, v2)
-		q11, q12, q21, q22 = f[3], f[4], f[5], f[6]
+		h1, h2 = forwardStep(d[8*j:8*j+8:8*j+8], b[2*j:2*j+2:2*j+2], x[2*j:2*j+2:2*j+2], h1, h2)
 	}
+	finishNodes(d, x, b, n, g1, g2, h1, h2)
+}
+
+// finishNodes solves for the middle node, which both forward chains reach
+// with what they take off its right-hand side, then substitutes back.
+func finishNodes(d, x, b []float64, n int, g1, g2, h1, h2 float64) {
+	m := middleNode(n)
 	f := d[8*m : 8*m+3 : 8*m+3]
 	bb := b[2*m : 2*m+2 : 2*m+2]
-	z1 := bb[0] - (p11*y1 + p21*y2) - (q11*v1 + q21*v2)
-	z2 := bb[1] - (p12*y1 + p22*y2) - (q12*v1 + q22*v2)
-	a1, a2 := f[0]*z1+f[1]*z2, f[1]*z1+f[2]*z2
-	x[2*m], x[2*m+1] = a1, a2
+	z1, z2 := bb[0]-g1-h1, bb[1]-g2-h2
+	x[2*m], x[2*m+1] = f[0]*z1+f[1]*z2, f[1]*z1+f[2]*z2
 	backwardNodes(d, x, n)
 }
 
@@ -215,16 +212,6 @@ func backwardNodes(d, x []float64, n int) {
 		j := m + 1 + k
 		c1, c2 = backwardNode(d[8*j:8*j+8:8*j+8], x[2*j:2*j+2:2*j+2], c1, c2)
 	}
-}
-
-// forwardNode is one node of the forward sweep: z = b − Wᵀ·y, W the
-// multiplier (w11 w12; w21 w22) of the node before and y its z, then S⁻¹·z
-// into x, S⁻¹ from the node's factor f. It returns z.
-func forwardNode(f, b, x []float64, w11, w12, w21, w22, y1, y2 float64) (z1, z2 float64) {
-	z1 = b[0] - (w11*y1 + w21*y2)
-	z2 = b[1] - (w12*y1 + w22*y2)
-	x[0], x[1] = f[0]*z1+f[1]*z2, f[1]*z1+f[2]*z2
-	return z1, z2
 }
 
 // backwardNode is one node of the back substitution: x −= W·a, W the node's
