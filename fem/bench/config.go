@@ -28,13 +28,15 @@ type Config struct {
 	// the bytes-per-element target: below it fixed costs hide the growth
 	// with n. The table shows every size.
 	ExponentFrom int
-	// MemoryBoundFrom is the smallest size that enters the target on the
-	// multiple of a band copy. A copy measures memory speed only when the
-	// band and its copy do not fit in a core's cache: at 10,000 elements
-	// they take 0.3 MB (bar) to 1.3 MB (beam), which the 2 MB second-level
-	// cache of a core of the development machine holds, and the copy runs
-	// at cache speed, several times faster than from memory.
-	MemoryBoundFrom int
+	// CoreCacheBytes is the cache private to one core (its second-level
+	// cache on the development machine). A copy of the band measures memory
+	// speed only where the band does not fit there: a band that fits stays
+	// in that cache between repetitions and is read at cache speed, several
+	// times faster than from memory (Go's copy writes arrays of 1 MiB and
+	// more past the caches, so only the read side stays). The target on the
+	// multiple of a band copy covers the rows whose band exceeds it; the
+	// table shows every row. Zero means: ask the operating system (coreCache).
+	CoreCacheBytes int64
 	// DenseUnknowns lists the system sizes of the comparison with the dense
 	// solver, whose cost grows as n³.
 	DenseUnknowns []int
@@ -60,7 +62,6 @@ func DefaultConfig() Config {
 	return Config{
 		Elements:         []int{1_000, 10_000, 100_000, 1_000_000},
 		ExponentFrom:     10_000,
-		MemoryBoundFrom:  100_000,
 		DenseUnknowns:    []int{500, 1_000, 2_000},
 		PitfallUnknowns:  []int{2_500, 5_000, 10_000, 20_000},
 		OversizeElements: 1_000_000_000,
@@ -76,7 +77,7 @@ func QuickConfig() Config {
 	return Config{
 		Elements:         []int{200, 400, 800},
 		ExponentFrom:     100,
-		MemoryBoundFrom:  400,
+		CoreCacheBytes:   16 << 10, // between the quick sizes' bands (3 to 51 KiB)
 		DenseUnknowns:    []int{100, 200},
 		PitfallUnknowns:  []int{500, 1_000},
 		OversizeElements: 1_000_000_000,

@@ -152,3 +152,48 @@ func TestKernelsFallBackToStandIn(t *testing.T) {
 		}
 	}
 }
+
+// The target on the multiple of a band copy covers only the rows whose band
+// does not fit in a core's cache; the others are shown as "cache".
+func TestCopyTargetLeavesOutBandsInCache(t *testing.T) {
+	r := &Report{CoreCacheBytes: 2 << 20, CoreCacheSource: "test"}
+	for _, c := range []struct {
+		bytes int64
+		ratio float64
+	}{{1 << 20, 9}, {2 << 20, 8}, {3 << 20, 4.5}, {64 << 20, 3}} {
+		r.Rows = append(r.Rows, Row{Model: "bar", Elements: int(c.bytes / 16), BandBytes: c.bytes,
+			BandInCoreCache: c.bytes <= r.CoreCacheBytes, BandCopySeconds: 1e-3, OursToBandCopyRatio: c.ratio, OursToBandCopyPass: c.ratio <= targetBandCopyRatio})
+	}
+	var copyTarget *Target
+	for _, tg := range targets(r, 0) {
+		if strings.Contains(tg.Name, "copy of the band") {
+			copyTarget = &tg
+		}
+	}
+	// The rows of 1 and 2 MiB (ratios 9 and 8) fit; the worst of the others is 4.5.
+	if copyTarget == nil || copyTarget.Measured != 4.5 || !copyTarget.Pass {
+		t.Fatalf("copy target %+v, want the worst of the bands over 2 MiB, 4.5, passing", copyTarget)
+	}
+	var text bytes.Buffer
+	if err := r.WriteText(&text); err != nil {
+		t.Fatal(err)
+	}
+	if n := strings.Count(text.String(), "cache "); n < 2 {
+		t.Errorf("the kernel table marks %d rows as in cache, want 2:\n%s", n, text.String())
+	}
+}
+
+// The sizes Linux writes under /sys/devices/system/cpu/cpu0/cache.
+func TestParseCacheSize(t *testing.T) {
+	for _, c := range []struct {
+		in   string
+		want int64
+		ok   bool
+	}{{"2048K\n", 2 << 20, true}, {"48K", 48 << 10, true}, {"1M", 1 << 20, true}, {"491520K", 480 << 20, true},
+		{"", 0, false}, {"K", 0, false}, {"-4K", 0, false}, {"12Q", 0, false}} {
+		got, ok := parseCacheSize(c.in)
+		if got != c.want || ok != c.ok {
+			t.Errorf("parseCacheSize(%q) = %d, %v; want %d, %v", c.in, got, ok, c.want, c.ok)
+		}
+	}
+}
