@@ -67,9 +67,9 @@ func storeNode(f []float64, inv, s11, s12, s22, a11, a12, a21, a22 float64) {
 }
 
 // forwardStep is one node of the forward substitution, in the
-// factorization's sweep or after it: z = b − g, g what the node before took off, x = S⁻¹·z from
-// the node's factor f, and what this node takes off the next, Wᵀ·z, in the
-// arithmetic solveNodes uses on the stored factor.
+// factorization's sweep (factorNodes) or after it (solveNodes), in the same
+// arithmetic: z = b − g, g what the node before took off; x = S⁻¹·z from the
+// node's factor f; and what this node takes off the next, Wᵀ·z.
 func forwardStep(f, b, x []float64, g1, g2 float64) (float64, float64) {
 	z1, z2 := b[0]-g1, b[1]-g2
 	x[0], x[1] = f[0]*z1+f[1]*z2, f[1]*z1+f[2]*z2
