@@ -61,6 +61,11 @@ type builder struct {
 	occupied []rect
 	// texts are the labels, added to the scene after every other item.
 	texts []Item
+	// masks are the boxes of labels that sit where curves may pass (the
+	// segment names on the member, which the deflected shape crosses):
+	// filled with the background just under the texts, they break such a
+	// curve around the label instead of running it through the glyphs.
+	masks []rect
 	// Finite element curves: the deflection, and one per strip in layout order.
 	deflection *curve
 	feCurves   []*curve
@@ -123,10 +128,14 @@ func (b *builder) hoverLine(x, y0, y1 float32) {
 	}
 }
 
-// scene returns the items built with the texts on top of every other item.
+// scene returns the items built with the texts on top of every other item,
+// the masks just under them.
 func (b *builder) scene() *Scene {
+	for _, r := range b.masks {
+		b.rectangle(r.x0-1, r.y0, r.x1+1, r.y1, white)
+	}
 	b.s.Items = append(b.s.Items, b.texts...)
-	b.texts = nil
+	b.texts, b.masks = nil, nil
 	return b.s
 }
 

@@ -2,6 +2,7 @@ package canvas
 
 import (
 	"fmt"
+	"strings"
 	"testing"
 )
 
@@ -163,4 +164,48 @@ func BenchmarkBuild(b *testing.B) {
 			Build(in, v)
 		}
 	})
+}
+
+// The deflected shape passes through the segment names under the member; a
+// background box over the curve, under the name, keeps the glyphs clear.
+func TestSegmentNamesMaskTheDeflectedShape(t *testing.T) {
+	m := demoModel(40)
+	in := solved(t, m)
+	in.Layers.Deformed = true
+	v := NewView(1200, 900)
+	v.Fit(m)
+	s := Build(in, v)
+	lastCurve := -1
+	for i, it := range s.Items {
+		if it.Kind == Polyline && it.Stroke == deformedColour {
+			lastCurve = i
+		}
+	}
+	if lastCurve < 0 {
+		t.Fatal("no deflected shape drawn")
+	}
+	names := 0
+	for i, it := range s.Items {
+		if it.Kind != Text || !strings.HasPrefix(it.Text, "S") || !strings.HasSuffix(it.Text, " steel") {
+			continue
+		}
+		names++
+		masked := false
+		for j := lastCurve + 1; j < i; j++ {
+			p := s.Items[j]
+			if p.Kind != Polygon || p.Fill != white || len(p.Points) != 4 {
+				continue
+			}
+			x0, y0, x1, y1 := p.Points[0].X, p.Points[0].Y, p.Points[2].X, p.Points[2].Y
+			if x0 <= it.At.X && x1 >= it.At.X+it.Width && y0 <= it.At.Y && y1 >= it.At.Y+textHeight(it.Size) {
+				masked = true
+			}
+		}
+		if !masked {
+			t.Errorf("the segment name %q has no background box between the deflected shape and itself", it.Text)
+		}
+	}
+	if names != 2 {
+		t.Fatalf("%d segment names found, want the demo's two", names)
+	}
 }

@@ -102,6 +102,7 @@ func (b *builder) segments(y float32) {
 		c := b.colourFor(Ref{Kind: Segment, Index: i}, faintColour)
 		if r, ok := b.label(name, smallSize, c, false, false,
 			labelSpot{mid, y + 6, 0.5, 0}, labelSpot{mid, y - 8, 0.5, 1}); ok {
+			b.masks = append(b.masks, r)
 			cy := (r.y0 + r.y1) / 2
 			b.handle(Ref{Kind: Segment, Index: i}, (r.y1-r.y0)/2, Point{r.x0, cy}, Point{r.x1, cy})
 		}
