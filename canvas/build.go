@@ -61,11 +61,10 @@ type builder struct {
 	occupied []rect
 	// texts are the labels, added to the scene after every other item.
 	texts []Item
-	// masks are the boxes of labels that sit where curves may pass (the
-	// segment names on the member, which the deflected shape crosses):
-	// filled with the background just under the texts, they break such a
-	// curve around the label instead of running it through the glyphs.
-	masks []rect
+	// clear are the boxes of labels that sit where the deflected shape may
+	// pass (the segment names on the member): the curve breaks around them
+	// instead of running through the glyphs.
+	clear []rect
 	// Finite element curves: the deflection, and one per strip in layout order.
 	deflection *curve
 	feCurves   []*curve
@@ -128,15 +127,86 @@ func (b *builder) hoverLine(x, y0, y1 float32) {
 	}
 }
 
-// scene returns the items built with the texts on top of every other item,
-// the masks just under them.
+// scene returns the items built with the texts on top of every other item.
 func (b *builder) scene() *Scene {
-	for _, r := range b.masks {
-		b.rectangle(r.x0-1, r.y0, r.x1+1, r.y1, white)
-	}
 	b.s.Items = append(b.s.Items, b.texts...)
-	b.texts, b.masks = nil, nil
+	b.texts = nil
 	return b.s
+}
+
+// around cuts the polyline pts where it passes through any of boxes (each
+// grown by pad) and returns the pieces outside them, each a polyline of its
+// own, so that a dash pattern runs on along each piece.
+func around(pts []Point, boxes []rect, pad float32) [][]Point {
+	var pieces [][]Point
+	var cur []Point
+	add := func(p Point) {
+		if n := len(cur); n == 0 || cur[n-1] != p {
+			cur = append(cur, p)
+		}
+	}
+	end := func() {
+		if len(cur) > 1 {
+			pieces = append(pieces, cur)
+		}
+		cur = nil
+	}
+	for i := 0; i+1 < len(pts); i++ {
+		p, q := pts[i], pts[i+1]
+		at := func(t float32) Point { return Point{p.X + t*(q.X-p.X), p.Y + t*(q.Y-p.Y)} }
+		t := float32(0)
+		for _, in := range insideSpans(p, q, boxes, pad) {
+			if in[0] > t {
+				add(at(t))
+				add(at(in[0]))
+			}
+			end()
+			t = max(t, in[1])
+		}
+		if t < 1 {
+			add(at(t))
+			add(q)
+		}
+	}
+	end()
+	return pieces
+}
+
+// insideSpans returns the parameter spans [t0, t1] ⊂ [0, 1], in order and
+// merged, where the segment p→q lies inside a box grown by pad (Liang and
+// Barsky's clipping of a segment against a rectangle).
+func insideSpans(p, q Point, boxes []rect, pad float32) [][2]float32 {
+	var spans [][2]float32
+	d := Point{q.X - p.X, q.Y - p.Y}
+	for _, r := range boxes {
+		t0, t1 := float32(0), float32(1)
+		for _, c := range [4][2]float32{
+			{-d.X, p.X - (r.x0 - pad)}, {d.X, (r.x1 + pad) - p.X},
+			{-d.Y, p.Y - (r.y0 - pad)}, {d.Y, (r.y1 + pad) - p.Y},
+		} {
+			switch {
+			case c[0] == 0 && c[1] < 0:
+				t0 = 2 // parallel to this edge and outside it
+			case c[0] < 0:
+				t0 = max(t0, c[1]/c[0])
+			case c[0] > 0:
+				t1 = min(t1, c[1]/c[0])
+			}
+		}
+		if t0 < t1 {
+			spans = append(spans, [2]float32{t0, t1})
+		}
+	}
+	slices.SortFunc(spans, func(a, b [2]float32) int { return cmp.Compare(a[0], b[0]) })
+	merged := spans[:0]
+	for _, sp := range spans {
+		if n := len(merged); n > 0 && sp[0] <= merged[n-1][1] {
+			merged[n-1][1] = max(merged[n-1][1], sp[1])
+			continue
+		}
+		merged = append(merged, sp)
+	}
+	return merged
 }
 
 // layoutBands is the vertical layout of a scene.

@@ -102,7 +102,7 @@ func (b *builder) segments(y float32) {
 		c := b.colourFor(Ref{Kind: Segment, Index: i}, faintColour)
 		if r, ok := b.label(name, smallSize, c, false, false,
 			labelSpot{mid, y + 6, 0.5, 0}, labelSpot{mid, y - 8, 0.5, 1}); ok {
-			b.masks = append(b.masks, r)
+			b.clear = append(b.clear, r)
 			cy := (r.y0 + r.y1) / 2
 			b.handle(Ref{Kind: Segment, Index: i}, (r.y1-r.y0)/2, Point{r.x0, cy}, Point{r.x1, cy})
 		}
@@ -656,7 +656,9 @@ func (b *builder) deformed(lay layoutBands) {
 	b.s.Magnification = mag
 	pxPerM := mag * b.v.Scale
 	pts := curve.points(func(w float64) float32 { return lay.memberY - float32(w*pxPerM) })
-	b.s.Items = append(b.s.Items, Item{Kind: Polyline, Points: pts, Stroke: deformedColour, StrokeWidth: 2, Dash: true})
+	for _, piece := range around(pts, b.clear, 1) {
+		b.s.Items = append(b.s.Items, Item{Kind: Polyline, Points: piece, Stroke: deformedColour, StrokeWidth: 2, Dash: true})
+	}
 	b.text(fmt.Sprintf("deflection × %s", trimFloat(mag)), 8, lay.top+24, smallSize, 0, 0, deformedColour, false)
 	px := b.sx(peak.x)
 	py := lay.memberY - float32(peak.value*pxPerM)
