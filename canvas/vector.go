@@ -113,15 +113,16 @@ func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, style paintSty
 			}
 			size := float64(it.Size) * k
 			for _, run := range splitSuperscripts(it.Text) {
-				f, y := face, at.Y
+				f, y, rs := face, at.Y, size
 				if run.raised {
-					f = textFace(float32(superscriptScale*size), false)
+					rs = superscriptScale * size
+					f = textFace(float32(rs), false)
 					y += vg.Length(superscriptRise * size)
 				}
 				txt := codePage1252(run.text)
 				c.FillString(f, vg.Point{X: at.X, Y: y}, txt)
 				if overprint {
-					c.FillString(f, vg.Point{X: at.X + vg.Length(0.045*size), Y: y}, txt)
+					c.FillString(f, vg.Point{X: at.X + vg.Length(0.045*rs), Y: y}, txt)
 				}
 				at.X += f.Width(run.text)
 			}

@@ -56,8 +56,12 @@ func parseCacheSize(s string) (int64, bool) {
 
 // mebibytes formats a byte count for the report: "2 MiB", "1.5 MiB", "48 KiB".
 func mebibytes(n int64) string {
-	if n < 1<<20 {
-		return fmt.Sprintf("%.3g KiB", float64(n)/(1<<10))
+	unit, name := int64(1<<10), "KiB"
+	if n >= 1<<20 {
+		unit, name = 1<<20, "MiB"
 	}
-	return fmt.Sprintf("%.3g MiB", float64(n)/(1<<20))
+	if n%unit == 0 {
+		return fmt.Sprintf("%d %s", n/unit, name)
+	}
+	return fmt.Sprintf("%.1f %s", float64(n)/float64(unit), name)
 }

@@ -77,7 +77,7 @@ func QuickConfig() Config {
 	return Config{
 		Elements:         []int{200, 400, 800},
 		ExponentFrom:     100,
-		CoreCacheBytes:   16 << 10, // between the quick sizes' bands (3 to 51 KiB)
+		CoreCacheBytes:   16 << 10, // between the quick sizes' bands (3 to 50 KiB), to exercise both kinds of row
 		DenseUnknowns:    []int{100, 200},
 		PitfallUnknowns:  []int{500, 1_000},
 		OversizeElements: 1_000_000_000,

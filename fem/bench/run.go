@@ -78,7 +78,9 @@ type Row struct {
 	// the target on the multiple of a copy.
 	BandInCoreCache     bool    `json:"band_in_core_cache"`
 	OursToBandCopyRatio float64 `json:"ours_to_band_copy_ratio"`
-	OursToBandCopyPass  bool    `json:"ours_to_band_copy_pass"`
+	// OursToBandCopyPass is the ratio against the limit, also for a row
+	// whose band is in the core's cache and so no part of the target.
+	OursToBandCopyPass bool `json:"ours_to_band_copy_pass"`
 	// KernelFailures lists factorizations that refused the model's system.
 	KernelFailures []string `json:"kernel_failures,omitempty"`
 	// KernelSystem says what the kernels were timed on: "model", the
@@ -618,7 +620,7 @@ func targets(r *Report, from int) []Target {
 	// A band that fits in a core's cache is copied at cache speed: there the
 	// copy is no memory floor (Config.CoreCacheBytes).
 	worst(fmt.Sprintf("ours / one copy of the band, bands over the %s core cache", mebibytes(r.CoreCacheBytes)), "ratio", targetBandCopyRatio, func(row Row) (float64, bool) {
-		return row.OursToBandCopyRatio, row.BandBytes > r.CoreCacheBytes && row.OursToBandCopyRatio > 0
+		return row.OursToBandCopyRatio, !row.BandInCoreCache && row.OursToBandCopyRatio > 0
 	})
 	worst("beam end to end at 1e6 elements", "s", targetBeamSeconds, func(row Row) (float64, bool) {
 		return row.TotalSeconds, row.Model == "beam" && row.Elements >= targetBeamElements && row.TotalSeconds > 0

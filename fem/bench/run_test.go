@@ -3,6 +3,7 @@ package bench
 import (
 	"bytes"
 	"encoding/json"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
@@ -71,6 +72,7 @@ func TestQuickRun(t *testing.T) {
 		"ours_to_pbtrf_pbtrs_ratio", "fem_solve_to_pbtrf_pbtrs_ratio", "ours_to_band_copy_ratio", "ours_to_dense_ratio",
 		"band_cholesky_to_pbtrf_ratio", "scaling_exponent", "elements", "total_seconds",
 		"peak_heap_bytes_per_element", "allocated_bytes_per_element", "cpus", "go_version",
+		"band_bytes", "band_in_core_cache", "core_cache_bytes", "core_cache_source",
 	} {
 		if keys[want] == 0 {
 			t.Errorf("the JSON report has no key %q", want)
@@ -88,6 +90,19 @@ func TestQuickRun(t *testing.T) {
 		// Pbtrs must agree; fem's answer also checks Assemble at run time.
 		if ag := row.Agreement; !ag.Meaningful || !ag.Agree {
 			t.Errorf("%s model, %d elements: Pbtrs's solution differs from ours by %.2g and from fem's by %.2g (tolerance %.2g, scaled condition %.2g)", row.Model, row.Elements, ag.Difference, ag.FemDifference, ag.Tolerance, ag.Condition)
+		}
+	}
+	// The band's size and whether it fits the (quick configuration's
+	// 16 KiB) core cache, row by row.
+	if r.CoreCacheBytes != cfg.CoreCacheBytes || r.CoreCacheSource == "" {
+		t.Errorf("core cache %d B from %q, want the configuration's %d B", r.CoreCacheBytes, r.CoreCacheSource, cfg.CoreCacheBytes)
+	}
+	for _, row := range r.Rows {
+		if want := int64(8 * row.Unknowns * (row.HalfBandwidth + 1)); row.BandBytes != want {
+			t.Errorf("%s model, %d elements: band of %d B, want 8·%d·%d = %d", row.Model, row.Elements, row.BandBytes, row.Unknowns, row.HalfBandwidth+1, want)
+		}
+		if in := row.BandBytes <= cfg.CoreCacheBytes; row.BandInCoreCache != in {
+			t.Errorf("%s model, %d elements: band of %d B marked in the %d B cache: %v", row.Model, row.Elements, row.BandBytes, cfg.CoreCacheBytes, row.BandInCoreCache)
 		}
 	}
 	for _, d := range r.Dense {
@@ -161,7 +176,7 @@ func TestCopyTargetLeavesOutBandsInCache(t *testing.T) {
 		bytes int64
 		ratio float64
 	}{{1 << 20, 9}, {2 << 20, 8}, {3 << 20, 4.5}, {64 << 20, 3}} {
-		r.Rows = append(r.Rows, Row{Model: "bar", Elements: int(c.bytes / 16), BandBytes: c.bytes,
+		r.Rows = append(r.Rows, Row{Model: "bar", Elements: int(c.bytes / 16), BandBytes: c.bytes, KernelSystem: "model",
 			BandInCoreCache: c.bytes <= r.CoreCacheBytes, BandCopySeconds: 1e-3, OursToBandCopyRatio: c.ratio, OursToBandCopyPass: c.ratio <= targetBandCopyRatio})
 	}
 	var copyTarget *Target
@@ -174,12 +189,27 @@ func TestCopyTargetLeavesOutBandsInCache(t *testing.T) {
 	if copyTarget == nil || copyTarget.Measured != 4.5 || !copyTarget.Pass {
 		t.Fatalf("copy target %+v, want the worst of the bands over 2 MiB, 4.5, passing", copyTarget)
 	}
+	// The ×copy verdict of each row of the kernel table: "cache" for the
+	// two bands that fit, the ratio's own verdict for the others.
 	var text bytes.Buffer
 	if err := r.WriteText(&text); err != nil {
 		t.Fatal(err)
 	}
-	if n := strings.Count(text.String(), "cache "); n < 2 {
-		t.Errorf("the kernel table marks %d rows as in cache, want 2:\n%s", n, text.String())
+	want := map[string]string{"65536": "cache", "131072": "cache", "196608": "PASS", "4194304": "PASS"}
+	seen := 0
+	for _, l := range strings.Split(text.String(), "\n") {
+		f := strings.Fields(l)
+		if len(f) < 5 || f[0] != "bar" || f[4] != "model" {
+			continue // not a row of the kernel table
+		}
+		seen++
+		v := want[f[1]]
+		if !slices.Contains(f, v) || v != "cache" && slices.Contains(f, "cache") {
+			t.Errorf("kernel row %q: want %s as its ×copy verdict", l, v)
+		}
+	}
+	if seen != len(want) {
+		t.Errorf("found %d of the %d kernel rows in the text:\n%s", seen, len(want), text.String())
 	}
 }
 
@@ -194,6 +224,17 @@ func TestParseCacheSize(t *testing.T) {
 		got, ok := parseCacheSize(c.in)
 		if got != c.want || ok != c.ok {
 			t.Errorf("parseCacheSize(%q) = %d, %v; want %d, %v", c.in, got, ok, c.want, c.ok)
+		}
+	}
+}
+
+func TestMebibytes(t *testing.T) {
+	for _, c := range []struct {
+		n    int64
+		want string
+	}{{2 << 20, "2 MiB"}, {3 << 19, "1.5 MiB"}, {48 << 10, "48 KiB"}, {1000 << 10, "1000 KiB"}, {1 << 30, "1024 MiB"}, {1536, "1.5 KiB"}} {
+		if got := mebibytes(c.n); got != c.want {
+			t.Errorf("mebibytes(%d) = %q, want %q", c.n, got, c.want)
 		}
 	}
 }
