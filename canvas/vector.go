@@ -107,10 +107,6 @@ func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, style paintSty
 			baseline := top.Y - face.Extents().Ascent - vg.Length(0.04*float64(it.Size)*k)
 			setColour(it.Stroke)
 			at := vg.Point{X: top.X, Y: baseline}
-			if style != forPDF {
-				c.FillString(face, at, it.Text)
-				continue
-			}
 			size := float64(it.Size) * k
 			for _, run := range splitSuperscripts(it.Text) {
 				f, y, rs := face, at.Y, size
@@ -119,7 +115,10 @@ func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, style paintSty
 					f = textFace(float32(rs), false)
 					y += vg.Length(superscriptRise * size)
 				}
-				txt := codePage1252(run.text)
+				txt := run.text
+				if style == forPDF {
+					txt = codePage1252(txt)
+				}
 				c.FillString(f, vg.Point{X: at.X, Y: y}, txt)
 				if overprint {
 					c.FillString(f, vg.Point{X: at.X + vg.Length(0.045*rs), Y: y}, txt)
@@ -202,50 +201,6 @@ type straightAlpha color.NRGBA
 
 func (c straightAlpha) RGBA() (r, g, b, a uint32) {
 	return uint32(c.R) * 0x101, uint32(c.G) * 0x101, uint32(c.B) * 0x101, uint32(c.A) * 0x101
-}
-
-// Superscript digits and minus go to vgpdf as ordinary characters, smaller
-// and raised: "mm⁴" is "mm" and a raised "4", as on screen, not "mm^4".
-// Code page 1252, all vgpdf's text knows, lacks ⁰ ⁴ … ⁹ ⁻; ¹ ² ³ are raised
-// the same way so that "mm²" and "mm⁴" match.
-const (
-	superscriptScale = 0.62 // of the text's size
-	superscriptRise  = 0.36 // of the text's size, above the baseline
-)
-
-var superscriptDigits = map[rune]rune{'⁰': '0', '¹': '1', '²': '2', '³': '3', '⁴': '4', '⁵': '5', '⁶': '6', '⁷': '7', '⁸': '8', '⁹': '9', '⁻': '-'}
-
-// textRun is a stretch of text drawn at one size and height.
-type textRun struct {
-	text   string
-	raised bool
-}
-
-// splitSuperscripts cuts s into runs of ordinary text and of superscripts,
-// the latter written as ordinary characters.
-func splitSuperscripts(s string) []textRun {
-	var runs []textRun
-	var b strings.Builder
-	raised := false
-	flush := func() {
-		if b.Len() > 0 {
-			runs = append(runs, textRun{b.String(), raised})
-			b.Reset()
-		}
-	}
-	for _, r := range s {
-		plain, sup := superscriptDigits[r]
-		if sup != raised {
-			flush()
-			raised = sup
-		}
-		if sup {
-			r = plain
-		}
-		b.WriteRune(r)
-	}
-	flush()
-	return runs
 }
 
 // codePage1252 re-encodes s for vgpdf's text, with "?" for what the code
