@@ -138,6 +138,9 @@ func (b *builder) scene() *Scene {
 // grown by pad) and returns the pieces outside them, each a polyline of its
 // own, so that a dash pattern runs on along each piece.
 func around(pts []Point, boxes []rect, pad float32) [][]Point {
+	if len(boxes) == 0 && len(pts) > 1 {
+		return [][]Point{pts} // nothing to cut: no copy
+	}
 	var pieces [][]Point
 	var cur []Point
 	add := func(p Point) {

@@ -26,10 +26,7 @@ func textFace(size float32, bold bool) font.Face {
 func textWidth(s string, size float32, bold bool) float32 {
 	w := vg.Length(0)
 	for _, run := range splitSuperscripts(s) {
-		f := textFace(size, bold)
-		if run.raised {
-			f = textFace(superscriptScale*size, false)
-		}
+		f := run.face(size, bold)
 		w += f.Width(run.text)
 	}
 	return float32(w)
@@ -51,6 +48,15 @@ var superscriptDigits = map[rune]rune{'⁰': '0', '¹': '1', '²': '2', '³': '3
 type textRun struct {
 	text   string
 	raised bool
+}
+
+// face is the face a run is measured and drawn with at text size size:
+// superscripts smaller and never bold.
+func (r textRun) face(size float32, bold bool) font.Face {
+	if r.raised {
+		return textFace(superscriptScale*size, false)
+	}
+	return textFace(size, bold)
 }
 
 // splitSuperscripts cuts s into runs of ordinary text and of superscripts,

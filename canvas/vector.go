@@ -109,10 +109,9 @@ func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, style paintSty
 			at := vg.Point{X: top.X, Y: baseline}
 			size := float64(it.Size) * k
 			for _, run := range splitSuperscripts(it.Text) {
-				f, y, rs := face, at.Y, size
+				f, y, rs := run.face(it.Size*float32(k), it.Bold && !overprint), at.Y, size
 				if run.raised {
 					rs = superscriptScale * size
-					f = textFace(float32(rs), false)
 					y += vg.Length(superscriptRise * size)
 				}
 				txt := run.text
