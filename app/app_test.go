@@ -315,7 +315,7 @@ func BenchmarkEditSolveScene(b *testing.B) {
 	b.ResetTimer()
 	for i := 0; i < b.N; i++ {
 		start := time.Now()
-		p.Model = cloneModel(m)
+		p.Model = m.Clone()
 		p.Model.PointLoads[0].X += 1e-3 * float64(i%100)
 		a := solveStage(request{seq: uint64(i), model: p.Model})
 		if a.solution == nil {

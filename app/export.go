@@ -72,7 +72,7 @@ func Export(w io.Writer, p *storage.Project, kind string, opts ExportOptions) er
 		return fmt.Errorf("cannot export %q: choose one of %s", kind, exportKindList())
 	}
 	u := unitSystem(p.View.Units)
-	a := analyse(request{model: cloneModel(p.Model), opts: checkOptionsFor(p.View, u)})
+	a := analyse(request{model: p.Model.Clone(), opts: checkOptionsFor(p.View, u)})
 	return writeExport(w, exportSource{project: p, analysis: &a, rows: checkRows(&a), layers: layersFrom(p.View.Overlays), units: u}, kind, opts)
 }
 

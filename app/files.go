@@ -494,7 +494,7 @@ func (w *Window) exportSource() exportSource {
 	if a := w.result; a != nil && a.seq == w.pending && a.complete {
 		src.analysis = a
 	} else {
-		src.pending = &request{model: cloneModel(w.project.Model), nodes: append([]float64(nil), w.adaptNodes...), opts: w.checkOptions()}
+		src.pending = &request{model: w.project.Model.Clone(), nodes: append([]float64(nil), w.adaptNodes...), opts: w.checkOptions()}
 	}
 	return src
 }

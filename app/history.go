@@ -45,20 +45,3 @@ func shift(from, to *[]edit) (edit, bool) {
 	*to = append(*to, e)
 	return e, true
 }
-
-// cloneModel copies m so that no slice is shared with the original.
-func cloneModel(m fem.Model) fem.Model {
-	c := m
-	c.Segments = append([]fem.Segment(nil), m.Segments...)
-	c.Supports = append([]fem.Support(nil), m.Supports...)
-	c.PointLoads = append([]fem.PointLoad(nil), m.PointLoads...)
-	c.DistributedLoad = make([]fem.DistributedLoad, len(m.DistributedLoad))
-	for i, d := range m.DistributedLoad {
-		d.Points = append([]fem.LoadPoint(nil), d.Points...)
-		c.DistributedLoad[i] = d
-	}
-	if m.DistributedLoad == nil {
-		c.DistributedLoad = nil
-	}
-	return c
-}

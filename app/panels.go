@@ -432,7 +432,7 @@ type readout struct {
 
 type quantity struct {
 	name string
-	q    units.Quantity
+	q    units.Kind
 	get  func(f fem.Fields) float64
 }
 

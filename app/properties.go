@@ -17,7 +17,7 @@ import (
 // field is one number of the selected item, shown and typed in display units.
 type field struct {
 	label string
-	q     units.Quantity
+	q     units.Kind
 	get   func(m *fem.Model) float64
 	set   func(m *fem.Model, v float64)
 }
@@ -28,7 +28,7 @@ func fieldsFor(m *fem.Model, r canvas.Ref) []field {
 	pos := func(label string, p func(m *fem.Model) *float64) field {
 		return field{label, units.Position, func(m *fem.Model) float64 { return *p(m) }, func(m *fem.Model, v float64) { *p(m) = v }}
 	}
-	num := func(label string, q units.Quantity, p func(m *fem.Model) *float64) field {
+	num := func(label string, q units.Kind, p func(m *fem.Model) *float64) field {
 		f := pos(label, p)
 		f.q = q
 		return f
@@ -67,7 +67,7 @@ func fieldsFor(m *fem.Model, r canvas.Ref) []field {
 				num("Transverse stiffness", units.TranslationalStiffness, func(m *fem.Model) *float64 { return &s(m).Stiffness[1] }),
 				num("Rotational stiffness", units.RotationalStiffness, func(m *fem.Model) *float64 { return &s(m).Stiffness[2] }))
 		}
-		for d, q := range []units.Quantity{units.Deflection, units.Deflection, units.Rotation} {
+		for d, q := range []units.Kind{units.Deflection, units.Deflection, units.Rotation} {
 			if k.Restrains(fem.Dof(d)) {
 				fs = append(fs, num("Settlement "+fem.Dof(d).String(), q, func(m *fem.Model) *float64 { return &s(m).Settlement[d] }))
 			}

@@ -24,33 +24,33 @@ type snapper struct {
 // (so it does not snap to where it started).
 func newSnapper(m *fem.Model, moving canvas.Ref, grid, metresPerPixel float64) snapper {
 	s := snapper{grid: grid, reach: snapPixels * metresPerPixel, length: m.Length()}
-	if len(m.Segments) > 0 {
-		s.points = append(s.points, 0)
-	}
-	for i, seg := range m.Segments {
-		if !(moving.Kind == canvas.Segment && moving.Index == i) && !(moving.Kind == canvas.MemberEnd && i == len(m.Segments)-1) {
-			s.points = append(s.points, seg.End)
-		}
-	}
-	for i, sup := range m.Supports {
-		if !(moving.Kind == canvas.Support && moving.Index == i) {
-			s.points = append(s.points, sup.X)
-		}
-	}
-	for i, p := range m.PointLoads {
-		if !(moving.Kind == canvas.PointLoad && moving.Index == i) {
-			s.points = append(s.points, p.X)
-		}
-	}
-	for i, d := range m.DistributedLoad {
-		if (moving.Kind == canvas.DistributedLoad || moving.Kind == canvas.LoadVertex) && moving.Index == i {
-			continue
-		}
-		for _, p := range d.Points {
-			s.points = append(s.points, p.X)
+	for _, f := range fem.Features(m) {
+		if !moves(moving, f, len(m.Segments)) {
+			s.points = append(s.points, f.X)
 		}
 	}
 	return s
+}
+
+// moves reports whether dragging the part moving carries feature f along.
+// A segment carries the break at its end (its own end and the next
+// segment's start), the member end the last segment's end, a distributed
+// load or one of its vertices the whole load.
+func moves(moving canvas.Ref, f fem.Feature, segments int) bool {
+	it := f.Item
+	switch moving.Kind {
+	case canvas.Segment:
+		return it.Kind == fem.SegmentItem && (it.Index == moving.Index && f.Vertex == 1 || it.Index == moving.Index+1 && f.Vertex == 0)
+	case canvas.MemberEnd:
+		return it.Kind == fem.SegmentItem && it.Index == segments-1 && f.Vertex == 1
+	case canvas.Support:
+		return it.Kind == fem.SupportItem && it.Index == moving.Index
+	case canvas.PointLoad:
+		return it.Kind == fem.PointLoadItem && it.Index == moving.Index
+	case canvas.DistributedLoad, canvas.LoadVertex:
+		return it.Kind == fem.DistributedLoadItem && it.Index == moving.Index
+	}
+	return false
 }
 
 // snap returns x moved onto the nearest feature within reach, else onto the

@@ -67,7 +67,7 @@ func newSolver(st stages, post func(func()), deliver func(analysis)) *solver {
 // only (the UI's).
 func (s *solver) submit(m fem.Model, nodes []float64, opts check.Options) uint64 {
 	s.next++
-	r := request{seq: s.next, model: cloneModel(m), nodes: append([]float64(nil), nodes...), opts: opts}
+	r := request{seq: s.next, model: m.Clone(), nodes: append([]float64(nil), nodes...), opts: opts}
 	if nodes == nil {
 		r.nodes = nil
 	}

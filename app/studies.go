@@ -46,7 +46,7 @@ func (w *Window) background(what string, work func(m fem.Model) func()) {
 	}
 	w.studying = true
 	w.setStatus("%s running…", what)
-	m := cloneModel(w.project.Model)
+	m := w.project.Model.Clone()
 	go func() {
 		done := work(m)
 		w.post(func() {

@@ -105,7 +105,7 @@ func (w *Window) Model() fem.Model { return w.project.Model }
 // cloneProject copies p so the copy shares no slices with p.
 func cloneProject(p storage.Project) storage.Project {
 	c := p
-	c.Model = cloneModel(p.Model)
+	c.Model = p.Model.Clone()
 	c.LoadOrder = append([]storage.LoadKind(nil), p.LoadOrder...)
 	return c
 }
@@ -163,7 +163,7 @@ func validate(m *fem.Model) error {
 // model, makes it current as one undoable edit. A failing change leaves the
 // model as it was and says why in the status line.
 func (w *Window) apply(name string, change func(m *fem.Model) error) error {
-	cand := cloneModel(w.project.Model)
+	cand := w.project.Model.Clone()
 	if err := change(&cand); err != nil {
 		w.setStatus("%s: %v", name, err)
 		return err
@@ -419,7 +419,7 @@ func (w *Window) dragTo(g *gesture, ev *fyne.DragEvent) {
 		w.draw.Refresh()
 		return
 	}
-	cand := cloneModel(g.before)
+	cand := g.before.Clone()
 	if err := w.dragModel(&cand, g, ev.Position); err != nil {
 		w.setStatus("%v", err)
 		return

@@ -5,7 +5,6 @@ import (
 	"image/color"
 	"math"
 	"slices"
-	"sort"
 	"strings"
 
 	"stave/fem"
@@ -344,7 +343,7 @@ func (b *builder) arrow(tail, tip Point, c color.NRGBA, width, head float32) {
 }
 
 // format writes an SI value in the chosen unit system.
-func (b *builder) format(q units.Quantity, v float64) string { return b.u.Format(q, v) }
+func (b *builder) format(q units.Kind, v float64) string { return b.u.Format(q, v) }
 
 // wrap breaks s into lines no wider than w pixels.
 func wrap(s string, size float32, bold bool, w float32) []string {
@@ -380,34 +379,6 @@ func niceBelow(v float64) float64 {
 		}
 	}
 	return p
-}
-
-// keyPoints are the positions where results may jump or kink: ends, segment
-// breaks, supports, point loads and load vertices, sorted and unique.
-func keyPoints(m *fem.Model) []float64 {
-	xs := []float64{0, m.Length()}
-	for _, s := range m.Segments {
-		xs = append(xs, s.Start, s.End)
-	}
-	for _, s := range m.Supports {
-		xs = append(xs, s.X)
-	}
-	for _, p := range m.PointLoads {
-		xs = append(xs, p.X)
-	}
-	for _, d := range m.DistributedLoad {
-		for _, p := range d.Points {
-			xs = append(xs, p.X)
-		}
-	}
-	sort.Float64s(xs)
-	out := xs[:0]
-	for i, x := range xs {
-		if i == 0 || x != out[len(out)-1] {
-			out = append(out, x)
-		}
-	}
-	return out
 }
 
 // reactionRowHeight is the height of one line of reaction labels.

@@ -13,7 +13,7 @@ import (
 // csvColumns are the quantities of a results table, in order.
 var csvColumns = []struct {
 	name string
-	unit units.Quantity
+	unit units.Kind
 	get  func(fem.Fields) float64
 }{
 	{"u", units.Deflection, func(f fem.Fields) float64 { return f.AxialDisplacement }},

@@ -12,7 +12,7 @@ import (
 type quantity struct {
 	name   string
 	symbol string
-	unit   units.Quantity
+	unit   units.Kind
 	get    func(*fem.Fields) float64
 	// within says how the quantity varies inside an element.
 	within variation
@@ -355,7 +355,7 @@ func exactCurves(e *fem.Exact, s *fem.Solution, m *fem.Model, v View, qs []quant
 		}
 	}
 	x0, x1 := max(0, v.ToModelX(0)), min(l, v.ToModelX(v.Width))
-	keys := keyPoints(m)
+	keys := fem.KeyPoints(m)
 	k := lowerBound(keys, x0)
 	n := int(math.Ceil(float64(v.ToScreenX(x1) - v.ToScreenX(x0))))
 	for j := 0; j <= n; j++ {

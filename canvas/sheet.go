@@ -231,7 +231,7 @@ func (sh *sheet) modelTable(m *fem.Model, u units.System) {
 }
 
 // summaryUnits maps fem.Summary quantity names to display quantities.
-var summaryUnits = map[string]units.Quantity{
+var summaryUnits = map[string]units.Kind{
 	"AxialDisplacement": units.Deflection, "Deflection": units.Deflection, "Rotation": units.Rotation,
 	"AxialForce": units.Force, "ShearForce": units.Force, "BendingMoment": units.Moment,
 	"AxialStress": units.Stress, "BendingStress": units.Stress, "CombinedStress": units.Stress,

@@ -206,7 +206,7 @@ func (b *builder) support(i int, sp fem.Support, y float32) {
 func (b *builder) settlement(sp fem.Support, x, y float32, c color.NRGBA) {
 	var parts []string
 	names := [3]string{"settles along ", "settles ", "turns "}
-	qs := [3]units.Quantity{units.Deflection, units.Deflection, units.Rotation}
+	qs := [3]units.Kind{units.Deflection, units.Deflection, units.Rotation}
 	for d := range 3 {
 		v := sp.Settlement[d]
 		if v == 0 || !sp.Kind.Restrains(fem.Dof(d)) {
@@ -545,7 +545,7 @@ func (b *builder) reactions(y float32) {
 		x := b.sx(r.X)
 		var parts []string
 		names := [3]string{"Rx ", "Ry ", "Mr "}
-		qs := [3]units.Quantity{units.Force, units.Force, units.Moment}
+		qs := [3]units.Kind{units.Force, units.Force, units.Moment}
 		for d := range 3 {
 			if r.Force[d] != 0 && b.supportHolds(r.Support, fem.Dof(d)) {
 				parts = append(parts, names[d]+b.format(qs[d], r.Force[d]))

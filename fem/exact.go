@@ -88,7 +88,7 @@ func SolveExact(m *Model) (*Exact, error) {
 	if err := checkMechanism(m); err != nil {
 		return nil, err
 	}
-	e := &Exact{keys: keyPoints(m)}
+	e := &Exact{keys: KeyPoints(m)}
 	points := make([]keyPoint, len(e.keys))
 	for i, s := range m.Supports {
 		k := &points[e.keyIndex(s.X)]

@@ -8,30 +8,20 @@ import (
 	"sort"
 )
 
-// keyPoints returns the sorted points that must be nodes: the ends, segment
-// breaks, supports, point loads and every break point of the distributed
-// loads, with points closer than mergeTolerance·L taken as one.
-func keyPoints(m *Model) []float64 { return keyPointsOf(m, true) }
+// KeyPoints returns the sorted points that must be nodes, the one rule every
+// part of Stave uses: the ends, segment breaks, supports, point loads and
+// every break point of the distributed loads (Features), clamped to the
+// member, with points closer than mergeTolerance·L taken as one.
+func KeyPoints(m *Model) []float64 { return keyPointsOf(m, true) }
 
-// keyPointsOf is keyPoints, leaving out the point loads unless withPointLoads.
+// keyPointsOf is KeyPoints, leaving out the point loads unless withPointLoads.
 // Without them it gives the key-point mesh Solve eliminates: a point load
 // close to a support would otherwise make a short, stiff stretch there.
 func keyPointsOf(m *Model, withPointLoads bool) []float64 {
 	pts := []float64{0, m.Length()}
-	for _, s := range m.Segments {
-		pts = append(pts, s.Start, s.End)
-	}
-	for _, s := range m.Supports {
-		pts = append(pts, s.X)
-	}
-	if withPointLoads {
-		for _, p := range m.PointLoads {
-			pts = append(pts, p.X)
-		}
-	}
-	for _, d := range m.DistributedLoad {
-		for _, p := range d.Points {
-			pts = append(pts, p.X)
+	for _, f := range Features(m) {
+		if withPointLoads || f.Item.Kind != PointLoadItem {
+			pts = append(pts, f.X)
 		}
 	}
 	return mergeSorted(pts, m.Length())
@@ -65,7 +55,7 @@ func BuildMesh(m *Model) (Mesh, error) {
 	if err := m.Validate(); err != nil {
 		return Mesh{}, err
 	}
-	keys := keyPoints(m)
+	keys := KeyPoints(m)
 	L := m.Length()
 	x := make([]float64, 0, len(keys)+max(m.Mesh.Elements, 0))
 	x = append(x, keys[0])
@@ -107,7 +97,7 @@ func MeshFromNodes(m *Model, x []float64) (Mesh, error) {
 			return Mesh{}, fmt.Errorf("fem: node %d (x = %s) lies before node %d (x = %s): list nodes in increasing x", i+1, fmtMetres(xi), i, fmtMetres(x[i-1]))
 		}
 	}
-	keys := keyPoints(m)
+	keys := KeyPoints(m)
 	all := make([]float64, 0, len(x)+len(keys))
 	all = append(all, keys...)
 	// Nodes that nearly coincide with a key point give way to it.
@@ -166,7 +156,7 @@ func checkMesh(m *Model, mesh Mesh) error {
 			return fmt.Errorf("fem: element %d of the mesh is inconsistent (x = %s to %s): rebuild the mesh", i+1, fmtMetres(e.Start), fmtMetres(e.End))
 		}
 	}
-	for _, k := range keyPoints(m) {
+	for _, k := range KeyPoints(m) {
 		if math.Abs(mesh.X[nearest(mesh.X, k)]-k) > tol {
 			return fmt.Errorf("fem: the mesh has no node at the key point x = %s: build it with BuildMesh or MeshFromNodes", fmtMetres(k))
 		}

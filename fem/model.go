@@ -1,5 +1,7 @@
 package fem
 
+import "slices"
+
 // Dof names one of the three motions of a point of the member.
 type Dof int
 
@@ -186,4 +188,21 @@ func (m *Model) SegmentAt(x float64) int {
 		}
 	}
 	return len(m.Segments) - 1
+}
+
+// Clone returns a deep copy of m: no slice is shared with m, so editing one
+// never changes the other. Nil slices stay nil.
+func (m *Model) Clone() Model {
+	c := *m
+	c.Segments = slices.Clone(m.Segments)
+	c.Supports = slices.Clone(m.Supports)
+	c.PointLoads = slices.Clone(m.PointLoads)
+	if m.DistributedLoad != nil {
+		c.DistributedLoad = make([]DistributedLoad, len(m.DistributedLoad))
+		for i, d := range m.DistributedLoad {
+			d.Points = slices.Clone(d.Points)
+			c.DistributedLoad[i] = d
+		}
+	}
+	return c
 }

@@ -213,14 +213,7 @@ func TestPropertyEquilibrium(t *testing.T) {
 
 // cloneModel copies m deeply, so edits leave m alone.
 func cloneModel(m *fem.Model) *fem.Model {
-	c := *m
-	c.Segments = slices.Clone(m.Segments)
-	c.Supports = slices.Clone(m.Supports)
-	c.PointLoads = slices.Clone(m.PointLoads)
-	c.DistributedLoad = make([]fem.DistributedLoad, len(m.DistributedLoad))
-	for i, d := range m.DistributedLoad {
-		c.DistributedLoad[i] = fem.DistributedLoad{Direction: d.Direction, Points: slices.Clone(d.Points)}
-	}
+	c := m.Clone()
 	return &c
 }
 

@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"math"
 	"math/bits"
-	"slices"
 )
 
 // Solution is the finite element answer for one model.
@@ -96,7 +95,7 @@ func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
 	if err != nil {
 		return nil, err
 	}
-	s := &Solution{Model: copyModel(m), Mesh: mesh, barOrder: m.Mesh.BarOrder, sections: sectionTable(m)}
+	s := &Solution{Model: m.Clone(), Mesh: mesh, barOrder: m.Mesh.BarOrder, sections: sectionTable(m)}
 	if s.barOrder == 0 {
 		s.barOrder = LinearBar
 	}
@@ -406,19 +405,6 @@ func equilibrium(m *Model, reactions []Reaction) Equilibrium {
 		q.Residual[i] = q.Applied[i] + q.Reactions[i]
 	}
 	return q
-}
-
-// copyModel copies m so the solution does not change when the caller edits its model.
-func copyModel(m *Model) Model {
-	c := *m
-	c.Segments = slices.Clone(m.Segments)
-	c.Supports = slices.Clone(m.Supports)
-	c.PointLoads = slices.Clone(m.PointLoads)
-	c.DistributedLoad = make([]DistributedLoad, len(m.DistributedLoad))
-	for i, d := range m.DistributedLoad {
-		c.DistributedLoad[i] = DistributedLoad{Direction: d.Direction, Points: slices.Clone(d.Points)}
-	}
-	return c
 }
 
 // checkMechanism looks for rigid-body motions the supports leave free. The

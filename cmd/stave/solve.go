@@ -103,7 +103,7 @@ func writeJSON(w io.Writer, v any) error {
 // extremeQuantity maps a summary quantity to its display quantity and a plain name.
 var extremeQuantity = map[string]struct {
 	label string
-	q     units.Quantity
+	q     units.Kind
 }{
 	"AxialDisplacement": {"axial displacement", units.Deflection},
 	"Deflection":        {"deflection", units.Deflection},

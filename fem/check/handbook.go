@@ -35,7 +35,7 @@ const (
 type Quantity struct {
 	Name  string
 	Value float64 // SI
-	Kind  units.Quantity
+	Kind  units.Kind
 	X     float64 // where it applies, m
 	Reads Reading
 }

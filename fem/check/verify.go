@@ -22,7 +22,7 @@ func equilibriumChecks(m *fem.Model, s *fem.Solution, o Options) []Result {
 	}
 	directions := []struct {
 		name, what string
-		kind       units.Quantity
+		kind       units.Kind
 		scale      float64
 	}{
 		{"axial forces", "forces along the member", units.Force, forceScale},

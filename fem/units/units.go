@@ -4,8 +4,8 @@
 //
 // The fem package works in base SI units only (m, N, Pa, kg, K, s, J). This
 // package sits at the edges: input fields call Parse, panels and reports call
-// Format. Each value a user sees is of one Quantity (a force, a moment, a
-// stress...); a System maps every Quantity to one Unit.
+// Format. Each value a user sees is of one Kind (a force, a moment, a
+// stress...); a System maps every Kind to one Unit.
 //
 // A Unit is a symbol and one factor, ToSI: SI value = display value × ToSI.
 // Every factor is exact, derived from the defining values of NIST Special
@@ -23,34 +23,35 @@ import (
 	"strings"
 )
 
-// Quantity names the kind of a value, which picks its display unit.
-type Quantity int
+// Kind names the kind of a value (a position, a force, a stress...), which
+// picks its display unit.
+type Kind int
 
-// Quantities Stave displays.
+// Kinds of value Stave displays.
 const (
-	Position               Quantity = iota // x along the member (m / ft)
-	Dimension                              // section dimensions (mm / in)
-	Deflection                             // displacements (mm / in)
-	Rotation                               // rad in both systems
-	Force                                  // kN / kip
-	Moment                                 // kN·m / kip·ft
-	LineLoad                               // kN/m / kip/ft
-	Stress                                 // MPa / ksi
-	Modulus                                // GPa / ksi
-	Area                                   // mm² / in²
-	SecondMoment                           // 10⁶ mm⁴ / in⁴
-	SectionModulus                         // 10³ mm³ / in³
-	Density                                // kg/m³ / lb/ft³
-	ThermalExpansion                       // 1/K / 1/°F
-	TemperatureChange                      // K / °F (differences)
-	TranslationalStiffness                 // kN/m / kip/in
-	RotationalStiffness                    // kN·m/rad / kip·in/rad
-	Acceleration                           // m/s² / ft/s²
-	Energy                                 // J / kip·in
-	quantityCount
+	Position               Kind = iota // x along the member (m / ft)
+	Dimension                          // section dimensions (mm / in)
+	Deflection                         // displacements (mm / in)
+	Rotation                           // rad in both systems
+	Force                              // kN / kip
+	Moment                             // kN·m / kip·ft
+	LineLoad                           // kN/m / kip/ft
+	Stress                             // MPa / ksi
+	Modulus                            // GPa / ksi
+	Area                               // mm² / in²
+	SecondMoment                       // 10⁶ mm⁴ / in⁴
+	SectionModulus                     // 10³ mm³ / in³
+	Density                            // kg/m³ / lb/ft³
+	ThermalExpansion                   // 1/K / 1/°F
+	TemperatureChange                  // K / °F (differences)
+	TranslationalStiffness             // kN/m / kip/in
+	RotationalStiffness                // kN·m/rad / kip·in/rad
+	Acceleration                       // m/s² / ft/s²
+	Energy                             // J / kip·in
+	kindCount
 )
 
-var quantityNames = [quantityCount]string{
+var kindNames = [kindCount]string{
 	"position", "section dimension", "deflection", "rotation", "force", "moment",
 	"line load", "stress", "modulus", "area", "second moment of area",
 	"section modulus", "density", "thermal expansion coefficient",
@@ -59,18 +60,18 @@ var quantityNames = [quantityCount]string{
 }
 
 // String names the quantity in plain words, for messages.
-func (q Quantity) String() string {
-	if q < 0 || q >= quantityCount {
+func (q Kind) String() string {
+	if q < 0 || q >= kindCount {
 		return "unknown quantity"
 	}
-	return quantityNames[q]
+	return kindNames[q]
 }
 
-// Quantities lists every Quantity in declaration order.
-func Quantities() []Quantity {
-	qs := make([]Quantity, quantityCount)
+// Kinds lists every Kind in declaration order.
+func Kinds() []Kind {
+	qs := make([]Kind, kindCount)
 	for i := range qs {
-		qs[i] = Quantity(i)
+		qs[i] = Kind(i)
 	}
 	return qs
 }
@@ -92,10 +93,10 @@ const (
 	fahrenheitStep  = 5.0 / 9.0 // K per °F of difference
 )
 
-// System is a consistent set of display units, one per Quantity.
+// System is a consistent set of display units, one per Kind.
 type System struct {
 	Name  string
-	Units [quantityCount]Unit
+	Units [kindCount]Unit
 }
 
 // SI shows positions in m and section dimensions and deflections in mm.
@@ -103,7 +104,7 @@ type System struct {
 // metric steel section tables print them (CISC Handbook of Steel Construction,
 // AISC metric tables; from memory): an IPE 300 reads 83.56 rather than 83560000.
 // Treat as read-only.
-var SI = System{Name: "SI", Units: [quantityCount]Unit{
+var SI = System{Name: "SI", Units: [kindCount]Unit{
 	Position:               {"m", 1},
 	Dimension:              {"mm", 1e-3},
 	Deflection:             {"mm", 1e-3},
@@ -127,7 +128,7 @@ var SI = System{Name: "SI", Units: [quantityCount]Unit{
 
 // USCustomary uses ft for positions, in for dimensions and deflections, kips
 // and ksi, as US structural practice does. Treat as read-only.
-var USCustomary = System{Name: "US", Units: [quantityCount]Unit{
+var USCustomary = System{Name: "US", Units: [kindCount]Unit{
 	Position:               {"ft", foot},
 	Dimension:              {"in", inch},
 	Deflection:             {"in", inch},
@@ -152,7 +153,7 @@ var USCustomary = System{Name: "US", Units: [quantityCount]Unit{
 // extraUnits are further units Parse accepts for a quantity, beyond the two
 // systems' own, so a user may type "300 mm" for a position or "0.3 m" for a
 // depth.
-var extraUnits = map[Quantity][]Unit{
+var extraUnits = map[Kind][]Unit{
 	Position:               {{"mm", 1e-3}, {"cm", 1e-2}, {"in", inch}},
 	Dimension:              {{"m", 1}, {"cm", 1e-2}, {"ft", foot}},
 	Deflection:             {{"m", 1}, {"cm", 1e-2}, {"ft", foot}},
@@ -186,18 +187,18 @@ func ByName(name string) (System, bool) {
 }
 
 // Unit is the display unit of q in this system.
-func (s System) Unit(q Quantity) Unit {
-	if q < 0 || q >= quantityCount {
+func (s System) Unit(q Kind) Unit {
+	if q < 0 || q >= kindCount {
 		return Unit{Symbol: "?", ToSI: 1}
 	}
 	return s.Units[q]
 }
 
 // ToDisplay converts an SI value of q to this system's display unit.
-func (s System) ToDisplay(q Quantity, vSI float64) float64 { return vSI / s.Unit(q).ToSI }
+func (s System) ToDisplay(q Kind, vSI float64) float64 { return vSI / s.Unit(q).ToSI }
 
 // FromDisplay converts a value in this system's display unit of q to SI.
-func (s System) FromDisplay(q Quantity, v float64) float64 { return v * s.Unit(q).ToSI }
+func (s System) FromDisplay(q Kind, v float64) float64 { return v * s.Unit(q).ToSI }
 
 // significantFigures is what Format shows: four figures is finer than any
 // load or property a member check starts from is known.
@@ -205,7 +206,7 @@ const significantFigures = 4
 
 // Format shows an SI value of q in display units with four significant
 // figures and the unit symbol, e.g. "-12.50 kN·m".
-func (s System) Format(q Quantity, vSI float64) string {
+func (s System) Format(q Kind, vSI float64) string {
 	return FormatNumber(s.ToDisplay(q, vSI)) + " " + s.Unit(q).Symbol
 }
 
@@ -232,8 +233,8 @@ func FormatNumber(v float64) string {
 // unit symbol of q from either system (or a common variant such as N, Pa,
 // mm⁴) is converted from that unit: "12 kN", "3.5 ft", "2.1e5 MPa".
 // Symbols may be typed in ASCII: "kN*m", "kN.m", "mm^4", "in4".
-func (s System) Parse(q Quantity, text string) (float64, error) {
-	if q < 0 || q >= quantityCount {
+func (s System) Parse(q Kind, text string) (float64, error) {
+	if q < 0 || q >= kindCount {
 		return 0, fmt.Errorf("cannot read %q: unknown quantity %d", text, int(q))
 	}
 	number, symbol := splitNumber(text)
@@ -250,7 +251,7 @@ func (s System) Parse(q Quantity, text string) (float64, error) {
 	if u, ok := lookUp(q, symbol); ok {
 		return v * u.ToSI, nil
 	}
-	if other, ok := quantityOf(symbol); ok {
+	if other, ok := kindOf(symbol); ok {
 		return 0, fmt.Errorf("'%s' is %s, but %s is expected here; use one of %s",
 			strings.TrimSpace(text), article(other), q, strings.Join(Accepted(q), ", "))
 	}
@@ -260,7 +261,7 @@ func (s System) Parse(q Quantity, text string) (float64, error) {
 
 // Accepted lists the unit symbols Parse takes for q: SI's first, then US's,
 // then the variants.
-func Accepted(q Quantity) []string {
+func Accepted(q Kind) []string {
 	var out []string
 	for _, u := range candidates(q) {
 		if !contains(out, u.Symbol) {
@@ -279,14 +280,14 @@ func contains(list []string, s string) bool {
 	return false
 }
 
-func candidates(q Quantity) []Unit {
-	if q < 0 || q >= quantityCount {
+func candidates(q Kind) []Unit {
+	if q < 0 || q >= kindCount {
 		return nil
 	}
 	return append([]Unit{SI.Units[q], USCustomary.Units[q]}, extraUnits[q]...)
 }
 
-func lookUp(q Quantity, symbol string) (Unit, bool) {
+func lookUp(q Kind, symbol string) (Unit, bool) {
 	key := normalize(symbol)
 	for _, u := range candidates(q) {
 		if normalize(u.Symbol) == key {
@@ -296,8 +297,8 @@ func lookUp(q Quantity, symbol string) (Unit, bool) {
 	return Unit{}, false
 }
 
-func quantityOf(symbol string) (Quantity, bool) {
-	for _, q := range Quantities() {
+func kindOf(symbol string) (Kind, bool) {
+	for _, q := range Kinds() {
 		if _, ok := lookUp(q, symbol); ok {
 			return q, true
 		}
@@ -305,11 +306,11 @@ func quantityOf(symbol string) (Quantity, bool) {
 	return 0, false
 }
 
-func (s System) example(q Quantity) string {
+func (s System) example(q Kind) string {
 	return "12 " + s.Unit(q).Symbol
 }
 
-func article(q Quantity) string {
+func article(q Kind) string {
 	name := q.String()
 	if strings.ContainsRune("aeiou", rune(name[0])) {
 		return "an " + name

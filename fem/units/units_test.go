@@ -69,7 +69,7 @@ func TestFactorsAgainstNIST811(t *testing.T) {
 	}
 }
 
-func extra(t *testing.T, q Quantity, symbol string) Unit {
+func extra(t *testing.T, q Kind, symbol string) Unit {
 	t.Helper()
 	u, ok := lookUp(q, symbol)
 	if !ok {
@@ -81,7 +81,7 @@ func extra(t *testing.T, q Quantity, symbol string) Unit {
 // SI display units are decimal multiples of the base units: the SI Brochure
 // prefixes (NIST SP 811, Sec. 4.3 table 5, from memory).
 func TestSIDisplayFactors(t *testing.T) {
-	want := map[Quantity]float64{
+	want := map[Kind]float64{
 		Position: 1, Dimension: 1e-3, Deflection: 1e-3, Force: 1e3, Moment: 1e3,
 		LineLoad: 1e3, Stress: 1e6, Modulus: 1e9, Area: 1e-6, SecondMoment: 1e-6,
 		SectionModulus: 1e-6, TranslationalStiffness: 1e3, RotationalStiffness: 1e3,
@@ -93,9 +93,9 @@ func TestSIDisplayFactors(t *testing.T) {
 	}
 }
 
-func TestEveryQuantityHasUnits(t *testing.T) {
+func TestEveryKindHasUnits(t *testing.T) {
 	for _, s := range Systems() {
-		for _, q := range Quantities() {
+		for _, q := range Kinds() {
 			u := s.Unit(q)
 			if u.Symbol == "" || !(u.ToSI > 0) {
 				t.Errorf("%s: %s has no unit (%+v)", s.Name, q, u)
@@ -110,7 +110,7 @@ func TestEveryQuantityHasUnits(t *testing.T) {
 func TestRoundTrip(t *testing.T) {
 	values := []float64{0, 1, -12.5, 3.7e-9, 2.1e11, 7850}
 	for _, s := range Systems() {
-		for _, q := range Quantities() {
+		for _, q := range Kinds() {
 			for _, v := range values {
 				back := s.FromDisplay(q, s.ToDisplay(q, v))
 				if math.Abs(back-v) > 1e-14*math.Abs(v) {
@@ -145,7 +145,7 @@ func TestByName(t *testing.T) {
 func TestFormat(t *testing.T) {
 	cases := []struct {
 		s    System
-		q    Quantity
+		q    Kind
 		vSI  float64
 		want string
 	}{
@@ -176,7 +176,7 @@ func TestFormat(t *testing.T) {
 func TestParse(t *testing.T) {
 	cases := []struct {
 		s    System
-		q    Quantity
+		q    Kind
 		text string
 		want float64 // SI
 	}{
@@ -221,7 +221,7 @@ func TestParse(t *testing.T) {
 
 func TestParseErrors(t *testing.T) {
 	cases := []struct {
-		q       Quantity
+		q       Kind
 		text    string
 		message string
 	}{

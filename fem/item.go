@@ -1,0 +1,64 @@
+package fem
+
+// ItemKind says which list of a Model an Item is in.
+type ItemKind int
+
+// Kinds of model item.
+const (
+	ModelItem           ItemKind = iota // the model as a whole (Index −1)
+	SegmentItem                         // Model.Segments[Index]
+	SupportItem                         // Model.Supports[Index]
+	PointLoadItem                       // Model.PointLoads[Index]
+	DistributedLoadItem                 // Model.DistributedLoad[Index]
+	MeshItem                            // Model.Mesh (Index −1)
+)
+
+var itemKindNames = [...]string{"model", "segment", "support", "point load", "distributed load", "mesh"}
+
+// String names the kind as messages do.
+func (k ItemKind) String() string {
+	if k < 0 || int(k) >= len(itemKindNames) {
+		return "unknown"
+	}
+	return itemKindNames[k]
+}
+
+// Item names one thing in a model: its kind and its 0-based index in that
+// kind's list (−1 for the model and the mesh).
+type Item struct {
+	Kind  ItemKind
+	Index int
+}
+
+// Feature is a point of the member where results may jump or kink, and the
+// item that puts it there: an end or break of a segment, a support, a point
+// load or a vertex of a distributed load.
+type Feature struct {
+	X      float64 // m
+	Item   Item
+	Vertex int // for a distributed load, the index of its vertex; for a segment, 0 at its start and 1 at its end
+}
+
+// Features lists every feature of m in model order (not sorted, not merged).
+func Features(m *Model) []Feature {
+	n := 2*len(m.Segments) + len(m.Supports) + len(m.PointLoads)
+	for _, d := range m.DistributedLoad {
+		n += len(d.Points)
+	}
+	out := make([]Feature, 0, n)
+	for i, s := range m.Segments {
+		out = append(out, Feature{s.Start, Item{SegmentItem, i}, 0}, Feature{s.End, Item{SegmentItem, i}, 1})
+	}
+	for i, s := range m.Supports {
+		out = append(out, Feature{X: s.X, Item: Item{SupportItem, i}})
+	}
+	for i, p := range m.PointLoads {
+		out = append(out, Feature{X: p.X, Item: Item{PointLoadItem, i}})
+	}
+	for i, d := range m.DistributedLoad {
+		for k, p := range d.Points {
+			out = append(out, Feature{p.X, Item{DistributedLoadItem, i}, k})
+		}
+	}
+	return out
+}

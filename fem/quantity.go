@@ -1,0 +1,112 @@
+package fem
+
+import "stave/fem/units"
+
+// Quantity names one result quantity of Fields. Every output (summaries,
+// the calculation sheet, CSV tables, the diagrams, the window's readout and
+// the command line) lists quantities from this one table, so a quantity is
+// named, given its unit and read from the fields in one place.
+type Quantity int
+
+// The result quantities, in the order reports list them.
+const (
+	QAxialDisplacement Quantity = iota // u, m
+	QDeflection                        // w, m, positive up
+	QRotation                          // θ = dw/dx, rad, counter-clockwise
+	QAxialForce                        // N, N, tension positive
+	QShearForce                        // V = dM/dx, N
+	QBendingMoment                     // M, N·m, sagging positive
+	QAxialStress                       // N/A, Pa
+	QBendingStress                     // M·c/I, Pa
+	QCombinedStress                    // N/A ± M·c/I of larger magnitude, Pa
+	quantityCount
+)
+
+// QuantityInfo describes a quantity for every output.
+type QuantityInfo struct {
+	// Field is the name of the quantity's member of Fields, as JSON
+	// summaries name it.
+	Field string
+	// Name is the trade's words for it, lower case: "bending moment".
+	Name string
+	// Symbol is its usual letter or formula: "M", "N/A".
+	Symbol string
+	// Column is its name in a CSV header: short, ASCII, no spaces.
+	Column string
+	// Unit is the kind of value, which picks the display unit.
+	Unit units.Kind
+	// SI is the symbol of its SI base unit, in which fem works.
+	SI string
+}
+
+var quantityInfo = [quantityCount]QuantityInfo{
+	QAxialDisplacement: {"AxialDisplacement", "axial displacement", "u", "u", units.Deflection, "m"},
+	QDeflection:        {"Deflection", "deflection", "w", "w", units.Deflection, "m"},
+	QRotation:          {"Rotation", "rotation", "θ", "theta", units.Rotation, "rad"},
+	QAxialForce:        {"AxialForce", "axial force", "N", "N", units.Force, "N"},
+	QShearForce:        {"ShearForce", "shear force", "V", "V", units.Force, "N"},
+	QBendingMoment:     {"BendingMoment", "bending moment", "M", "M", units.Moment, "N·m"},
+	QAxialStress:       {"AxialStress", "axial stress", "N/A", "sigma_axial", units.Stress, "Pa"},
+	QBendingStress:     {"BendingStress", "bending stress", "Mc/I", "sigma_bending", units.Stress, "Pa"},
+	QCombinedStress:    {"CombinedStress", "combined stress", "", "sigma_combined", units.Stress, "Pa"},
+}
+
+// Quantities lists every result quantity in report order.
+func Quantities() []Quantity {
+	qs := make([]Quantity, quantityCount)
+	for i := range qs {
+		qs[i] = Quantity(i)
+	}
+	return qs
+}
+
+// Info describes q; a value outside the table gives the zero QuantityInfo.
+func (q Quantity) Info() QuantityInfo {
+	if q < 0 || q >= quantityCount {
+		return QuantityInfo{}
+	}
+	return quantityInfo[q]
+}
+
+// String is the quantity's name in the trade's words.
+func (q Quantity) String() string {
+	if n := q.Info().Name; n != "" {
+		return n
+	}
+	return "unknown quantity"
+}
+
+// ParseQuantity finds the quantity whose Field, Name or Column is s.
+func ParseQuantity(s string) (Quantity, bool) {
+	for i, info := range quantityInfo {
+		if s == info.Field || s == info.Name || s == info.Column {
+			return Quantity(i), true
+		}
+	}
+	return 0, false
+}
+
+// Of reads q from f.
+func (q Quantity) Of(f *Fields) float64 {
+	switch q {
+	case QAxialDisplacement:
+		return f.AxialDisplacement
+	case QDeflection:
+		return f.Deflection
+	case QRotation:
+		return f.Rotation
+	case QAxialForce:
+		return f.AxialForce
+	case QShearForce:
+		return f.ShearForce
+	case QBendingMoment:
+		return f.BendingMoment
+	case QAxialStress:
+		return f.AxialStress
+	case QBendingStress:
+		return f.BendingStress
+	case QCombinedStress:
+		return f.CombinedStress
+	}
+	return 0
+}
