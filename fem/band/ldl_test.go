@@ -104,6 +104,117 @@ func TestLDLAgainstGonumDense(t *testing.T) {
 	}
 }
 
+// Factorize once, solve many: every kernel solves several right-hand sides
+// from one factorization, each against gonum's dense LU solve (mat.Dense.Solve
+// of all of them at once) as the reference. The factor must come out of each
+// solve, and of Cond, as it went in, and a solve must not depend on what its
+// destination held before.
+func TestLDLManyRightHandSides(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(11, 12))
+	// A node-blocked band with a coupling to the node after next: not block
+	// tridiagonal, so the scalar kernel factorizes it.
+	coupled := randomNodeBand(rnd, 10)
+	coupled.Add(9, 12, 0.25)
+	cases := []struct {
+		name   string
+		a      *Symmetric
+		kernel kernel
+	}{
+		{"half-bandwidth 1, n=1", randomSPDBand(rnd, 1, 1), tridiagonal},
+		{"half-bandwidth 1, n=40", randomSPDBand(rnd, 40, 1), tridiagonal},
+		{"half-bandwidth 1, n=41", randomSPDBand(rnd, 41, 1), tridiagonal},
+		{"half-bandwidth 3, node blocks, 3 nodes", randomNodeBand(rnd, 3), nodeBlocks},
+		{"half-bandwidth 3, node blocks, 20 nodes", randomNodeBand(rnd, 20), nodeBlocks},
+		{"half-bandwidth 3, node blocks, 21 nodes", randomNodeBand(rnd, 21), nodeBlocks},
+		{"half-bandwidth 3, scalar, n=5", randomSPDBand(rnd, 5, 3), twisted3},
+		{"half-bandwidth 3, scalar, n=41", randomSPDBand(rnd, 41, 3), twisted3},
+		{"half-bandwidth 3, scalar, not node-blocked", coupled, twisted3},
+		{"half-bandwidth 3, general, n=4", randomSPDBand(rnd, 4, 3), generalRows},
+		{"half-bandwidth 0, general", randomSPDBand(rnd, 9, 0), generalRows},
+		{"half-bandwidth 2, general", randomSPDBand(rnd, 40, 2), generalRows},
+		{"half-bandwidth 5, general", randomSPDBand(rnd, 41, 5), generalRows},
+	}
+	const solves = 5
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			n := c.a.N
+			rhs := mat.NewDense(n, solves, nil)
+			for i := range n {
+				for j := range solves {
+					rhs.Set(i, j, 2*rnd.Float64()-1)
+				}
+			}
+			var want mat.Dense
+			if err := want.Solve(dense(c.a), rhs); err != nil {
+				t.Fatal(err)
+			}
+			check := func(how string, j int, got []float64) {
+				t.Helper()
+				for i, g := range got {
+					w := want.At(i, j)
+					if !(math.Abs(g-w) <= 1e-12*max(1, math.Abs(w))) { // a NaN fails too
+						t.Fatalf("%s, right-hand side %d: x[%d] = %.15g, gonum %.15g", how, j, i, g, w)
+					}
+				}
+			}
+
+			var f LDL
+			if err := f.Factorize(c.a); err != nil {
+				t.Fatal(err)
+			}
+			if f.kernel != c.kernel {
+				t.Fatalf("factorized by kernel %d, want %d", f.kernel, c.kernel)
+			}
+			// One destination for every solve, holding garbage at first and
+			// then the previous solution.
+			dst := make([]float64, n)
+			for i := range dst {
+				dst[i] = math.NaN()
+			}
+			first := make([][]float64, solves)
+			for j := range solves {
+				b := mat.Col(nil, j, rhs)
+				if err := f.SolveTo(dst, b); err != nil {
+					t.Fatal(err)
+				}
+				if !slices.Equal(b, mat.Col(nil, j, rhs)) {
+					t.Fatalf("right-hand side %d changed by the solve", j)
+				}
+				check("SolveTo", j, dst)
+				first[j] = slices.Clone(dst)
+			}
+			// The condition estimate solves with the factor too.
+			f.Cond(c.a, nil)
+			// Again, backwards and in place: the same bits.
+			for j := solves - 1; j >= 0; j-- {
+				x := mat.Col(nil, j, rhs)
+				if err := f.SolveTo(x, x); err != nil {
+					t.Fatal(err)
+				}
+				if !slices.Equal(x, first[j]) {
+					t.Fatalf("right-hand side %d solved again in place: %v, first %v", j, x, first[j])
+				}
+			}
+
+			// FactorizeSolve for the first right-hand side, SolveTo for the rest.
+			var g LDL
+			x := make([]float64, n)
+			if err := g.FactorizeSolve(c.a, x, mat.Col(nil, 0, rhs)); err != nil {
+				t.Fatal(err)
+			}
+			check("FactorizeSolve", 0, x)
+			for j := 1; j < solves; j++ {
+				if err := g.SolveTo(x, mat.Col(nil, j, rhs)); err != nil {
+					t.Fatal(err)
+				}
+				if !slices.Equal(x, first[j]) {
+					t.Fatalf("right-hand side %d after FactorizeSolve: %v, after Factorize %v", j, x, first[j])
+				}
+			}
+		})
+	}
+}
+
 // Scaling the matrix by c scales the solution by 1/c: every kernel must keep
 // to that across float64's range, where products of three entries, or the
 // square of one, would overflow or underflow (a review found the node blocks
