@@ -226,8 +226,10 @@ func TestLDLScaleInvariance(t *testing.T) {
 		a    *Symmetric
 	}{
 		{"bar", randomSPDBand(rnd, 21, 1)},
-		{"general band 3", randomSPDBand(rnd, 21, 3)},
+		{"scalar band 3", randomSPDBand(rnd, 21, 3)},
 		{"node blocks", randomNodeBand(rnd, 11)},
+		{"general band 2", randomSPDBand(rnd, 21, 2)},
+		{"general band 5", randomSPDBand(rnd, 21, 5)},
 	}
 	for _, c := range cases {
 		n := c.a.N
