@@ -68,7 +68,7 @@ func TestLDLAgainstGonumDense(t *testing.T) {
 					t.Fatal(err)
 				}
 				for i := range got {
-					if math.Abs(got[i]-want.AtVec(i)) > 1e-12*max(1, math.Abs(want.AtVec(i))) {
+					if !(math.Abs(got[i]-want.AtVec(i)) <= 1e-12*max(1, math.Abs(want.AtVec(i)))) {
 						t.Fatalf("x[%d] = %.15g, gonum %.15g", i, got[i], want.AtVec(i))
 					}
 				}
@@ -79,7 +79,7 @@ func TestLDLAgainstGonumDense(t *testing.T) {
 					t.Fatal(err)
 				}
 				for i := range fused {
-					if math.Abs(fused[i]-want.AtVec(i)) > 1e-12*max(1, math.Abs(want.AtVec(i))) {
+					if !(math.Abs(fused[i]-want.AtVec(i)) <= 1e-12*max(1, math.Abs(want.AtVec(i)))) {
 						t.Fatalf("FactorizeSolve: x[%d] = %.15g, gonum %.15g", i, fused[i], want.AtVec(i))
 					}
 				}
@@ -253,7 +253,7 @@ func TestLDLScaleInvariance(t *testing.T) {
 				continue
 			}
 			for i := range got {
-				if math.Abs(got[i]*scale-want[i]) > 1e-12*max(1, math.Abs(want[i])) {
+				if !(math.Abs(got[i]*scale-want[i]) <= 1e-12*max(1, math.Abs(want[i]))) {
 					t.Errorf("%s scaled by %g: x[%d]·scale = %.15g, want %.15g", c.name, scale, i, got[i]*scale, want[i])
 					break
 				}

@@ -73,7 +73,7 @@ func TestNodeBlocksAgainstGonumDense(t *testing.T) {
 		}
 		for i := range got {
 			tol := 1e-12 * max(1, math.Abs(want.AtVec(i)))
-			if math.Abs(got[i]-want.AtVec(i)) > tol || math.Abs(fused[i]-want.AtVec(i)) > tol {
+			if !(math.Abs(got[i]-want.AtVec(i)) <= tol && math.Abs(fused[i]-want.AtVec(i)) <= tol) {
 				t.Fatalf("%d nodes: x[%d] = %.15g (FactorizeSolve %.15g), gonum %.15g", nodes, i, got[i], fused[i], want.AtVec(i))
 			}
 		}
@@ -114,7 +114,7 @@ func TestNodeBlocksAgainstGonumDense(t *testing.T) {
 		}
 	}
 	for i := range x {
-		if math.Abs(x[i]-want.AtVec(i)) > 1e-12*max(1, math.Abs(want.AtVec(i))) || inPlace[i] != x[i] {
+		if !(math.Abs(x[i]-want.AtVec(i)) <= 1e-12*max(1, math.Abs(want.AtVec(i)))) || inPlace[i] != x[i] {
 			t.Fatalf("a band not block tridiagonal: x[%d] = %.15g (in place %.15g), gonum %.15g", i, x[i], inPlace[i], want.AtVec(i))
 		}
 	}
