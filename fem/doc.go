@@ -30,8 +30,9 @@
 //
 // # How the pieces fit
 //
-//	Model ─Validate→ BuildMesh (or MeshFromNodes) → key-point system (SymBand,
-//	      BandLDL) → hierarchical refinement of every stretch → displacements
+//	Model ─Validate→ BuildMesh (or MeshFromNodes) → key-point system
+//	      (band.Symmetric, band.LDL) → hierarchical refinement of every
+//	      stretch → displacements
 //	      → reactions (statics), equilibrium, strain energy
 //	      → Solution.At / Solution.Sample (fields)
 //
@@ -51,7 +52,8 @@
 // and EI are constant and the loads are linear, and the functions added when
 // an interval is split are energy-orthogonal to every coarser function, so
 // the system falls apart into the small key-point system — assembled in
-// banded symmetric storage (SymBand) and factorized by BandLDL — and one 1×1
+// banded symmetric storage and factorized by package band (fem/band:
+// band.Symmetric, band.LDL) — and one 1×1
 // (bar) or 2×2 (beam) block per inner node. The cost is linear in the number
 // of elements and round-off does not grow with it; meshes of 4,096 elements
 // or more are refined on two goroutines, with the same answer to the bit on

@@ -26,7 +26,7 @@ import (
 // basis of the fine space in which the stiffness matrix is block diagonal:
 // the key-point system, then a 1×1 (bar) and a 2×2 (beam) system per
 // interior node. Each is well conditioned; the key-point system is solved by
-// BandLDL. Quadratic bars add one bubble per element, orthogonal to every
+// band.LDL. Quadratic bars add one bubble per element, orthogonal to every
 // piecewise linear function (its derivative integrates to zero on the
 // element).
 //

@@ -7,7 +7,7 @@ import (
 )
 
 // assembled is the plain finite element solution of m on mesh: the fine
-// stiffness matrix assembled and eliminated by BandLDL, the way Solve worked
+// stiffness matrix assembled and eliminated by band.LDL, the way Solve worked
 // before the hierarchical basis. It is exact in exact arithmetic, so on small
 // meshes, where its round-off is small, both must agree to round-off.
 type assembled struct {

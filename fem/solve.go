@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"math"
 	"math/bits"
+
+	"stave/fem/band"
 )
 
 // Solution is the finite element answer for one model.
@@ -79,7 +81,7 @@ func Solve(m *Model) (*Solution, error) {
 
 // SolveOnMesh solves the model on a given mesh, which must hold a node at
 // every key point (BuildMesh and MeshFromNodes make such meshes). The
-// key-point system is assembled and solved by BandLDL; the nodes between key
+// key-point system is assembled and solved by band.LDL; the nodes between key
 // points follow from the hierarchical basis of hierarchy.go in O(n).
 func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
 	if err := m.Validate(); err != nil {
@@ -220,12 +222,12 @@ func (beamSystem) local(d *elementData) (localMatrix, localVector) {
 
 // solveBanded assembles problem p on mesh (with element data els and point
 // loads at the nodes nodal), solves
-// it by BandLDL and returns the unknowns and the condition estimate of the
+// it by band.LDL and returns the unknowns and the condition estimate of the
 // scaled matrix. Solve uses it for the key-point mesh; on a fine mesh it is
 // the plain assembled solution.
 func solveBanded(m *Model, mesh Mesh, els []elementData, nodal [][3]float64, p system) ([]float64, float64, error) {
 	n, kb := p.size(len(els))
-	a := NewSymBand(n, kb)
+	a := band.NewSymmetric(n, kb)
 	rhs := make([]float64, n)
 	for e := range els {
 		first, count := p.element(e)
@@ -233,7 +235,7 @@ func solveBanded(m *Model, mesh Mesh, els []elementData, nodal [][3]float64, p s
 		for i := range count {
 			rhs[first+i] += f[i]
 			for j := i; j < count; j++ {
-				a.add(first+i, first+j, k[i][j])
+				a.Add(first+i, first+j, k[i][j])
 			}
 		}
 	}
@@ -253,7 +255,7 @@ func solveBanded(m *Model, mesh Mesh, els []elementData, nodal [][3]float64, p s
 			dof := p.nodeDof(node, mi)
 			switch {
 			case sup.Kind == Spring:
-				a.add(dof, dof, sup.Stiffness[d])
+				a.Add(dof, dof, sup.Stiffness[d])
 			case sup.Kind.Restrains(d):
 				fixed = append(fixed, prescribed{dof, sup.Settlement[d]})
 			}
@@ -282,10 +284,10 @@ func solveBanded(m *Model, mesh Mesh, els []elementData, nodal [][3]float64, p s
 	for _, c := range fixed {
 		rhs[c.dof] = a.Data[c.dof*(kb+1)] * c.value
 	}
-	var f BandLDL
+	var f band.LDL
 	u := make([]float64, n)
 	if err := f.FactorizeSolve(a, u, rhs); err != nil {
-		var pe *PivotError
+		var pe *band.PivotError
 		if errors.As(err, &pe) {
 			return nil, 0, pivotMessage(mesh.X, p, pe)
 		}
@@ -299,7 +301,7 @@ func solveBanded(m *Model, mesh Mesh, els []elementData, nodal [][3]float64, p s
 }
 
 // pivotMessage turns a failed pivot into a message that names the place.
-func pivotMessage(nodes []float64, p system, pe *PivotError) error {
+func pivotMessage(nodes []float64, p system, pe *band.PivotError) error {
 	x := nodes[len(nodes)-1]
 	for node := range nodes {
 		if p.nodeDof(node, 0) >= pe.Row {

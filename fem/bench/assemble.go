@@ -4,6 +4,7 @@ import (
 	"fmt"
 
 	"stave/fem"
+	"stave/fem/band"
 )
 
 // Problem is one of the two independent systems fem solves on a mesh.
@@ -34,7 +35,7 @@ func (p Problem) motions() []fem.Dof {
 // System is one assembled problem: A·x = B with the supports applied.
 type System struct {
 	Problem Problem
-	A       *fem.SymBand
+	A       *band.Symmetric
 	B       []float64
 }
 
@@ -57,7 +58,7 @@ func Assemble(m *fem.Model, mesh fem.Mesh, p Problem) (*System, error) {
 	nodes := len(mesh.X)
 	per := len(p.motions())
 	n, k := per*nodes, 2*per-1
-	a := fem.NewSymBand(n, k)
+	a := band.NewSymmetric(n, k)
 	b := make([]float64, n)
 	loads := elementLoads(m, mesh, p)
 	w := k + 1

@@ -5,10 +5,11 @@ import (
 	"testing"
 
 	"stave/fem"
+	"stave/fem/band"
 )
 
 // TestAssembleMatchesFem checks that the system the kernels are timed on is
-// the one fem solves: solved with fem.BandLDL it must give fem.Solve's nodal
+// the one fem solves: solved with band.LDL it must give fem.Solve's nodal
 // displacements. The reference is fem itself; the tolerance is round-off on
 // systems whose condition is far below 1/ε at these sizes.
 func TestAssembleMatchesFem(t *testing.T) {
@@ -32,7 +33,7 @@ func TestAssembleMatchesFem(t *testing.T) {
 				if err != nil {
 					t.Fatal(err)
 				}
-				var f fem.BandLDL
+				var f band.LDL
 				if err := f.Factorize(sys.A); err != nil {
 					t.Fatalf("%s: %v", p, err)
 				}

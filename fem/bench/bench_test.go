@@ -5,6 +5,7 @@ import (
 	"testing"
 
 	"stave/fem"
+	"stave/fem/band"
 )
 
 // The Go benchmarks below are the `go test -bench` view of the same
@@ -48,12 +49,12 @@ func BenchmarkKernel(b *testing.B) {
 			a, rhs := sys.A, sys.B
 			x := make([]float64, a.N)
 			system := "model"
-			var probe fem.BandLDL
+			var probe band.LDL
 			if probe.FactorizeSolve(a, x, rhs) != nil {
 				a, system = standIn(a), "stand-in"
 			}
 			b.Run(fmt.Sprintf("%s/elements=%d/%s/BandLDL", bm.name, size, system), func(b *testing.B) {
-				var f fem.BandLDL
+				var f band.LDL
 				for b.Loop() {
 					if err := f.FactorizeSolve(a, x, rhs); err != nil {
 						b.Fatal(err)

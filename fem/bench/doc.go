@@ -19,13 +19,13 @@
 // both per element.
 //
 // SolveOnMesh solves fine meshes in a hierarchical basis: it factorizes only
-// the small system of the key points with fem.BandLDL and finds the nodes
+// the small system of the key points with band.LDL and finds the nodes
 // between them in O(n) without elimination. The kernel comparison therefore
 // runs on a system the benchmark assembles itself (Assemble): the ordinary
 // fine-mesh system of linear bar or Hermite beam elements, with the same
 // consistent loads on the same mesh and the supports applied as fem applies
 // them, which is what any direct banded solve of the model would face. On
-// that identical system it times fem.BandLDL (FactorizeSolve), gonum's
+// that identical system it times band.LDL (FactorizeSolve), gonum's
 // banded Cholesky (lapack64.Pbtrf + Pbtrs), gonum's dense Cholesky up to a
 // few thousand unknowns, and one copy of the band array, the memory floor no
 // factorization of a band can beat. Pbtrs's solution is compared with ours

@@ -93,7 +93,7 @@ func (r *Report) kernelTable(b *strings.Builder) {
 	if r.Rows[0].BandCopySeconds == 0 {
 		return
 	}
-	b.WriteString("\nKernel on the identical assembled system: fem.BandLDL vs lapack64.Pbtrf+Pbtrs vs one copy of the band array\n")
+	b.WriteString("\nKernel on the identical assembled system: band.LDL vs lapack64.Pbtrf+Pbtrs vs one copy of the band array\n")
 	header := []string{"model", "elements", "unknowns", "K", "system", "ours f+s", "cond est", "Pbtrf+Pbtrs", "ratio",
 		fmt.Sprintf("≤ %.1f", targetGonumRatio), "solve/Pbtrf", "band copy", "×copy", fmt.Sprintf("≤ %d", targetBandCopyRatio),
 		"scaled cond", "ours diff", "fem diff", "tolerance", "agree"}

@@ -14,6 +14,7 @@ import (
 	"gonum.org/v1/gonum/mat"
 
 	"stave/fem"
+	"stave/fem/band"
 )
 
 // Report is the outcome of Run. Times are in seconds, memory in bytes.
@@ -62,7 +63,7 @@ type Row struct {
 	FemWarnings  []string `json:"fem_warnings,omitempty"`
 
 	// The kernel on the identical assembled system.
-	OursSeconds      float64 `json:"ours_factor_solve_seconds"` // BandLDL.FactorizeSolve
+	OursSeconds      float64 `json:"ours_factor_solve_seconds"` // band.LDL.FactorizeSolve
 	ConditionSeconds float64 `json:"ours_condition_estimate_seconds"`
 	GonumBandSeconds float64 `json:"pbtrf_pbtrs_seconds"` // copy of A and b, Pbtrf + Pbtrs
 	OursToGonumRatio float64 `json:"ours_to_pbtrf_pbtrs_ratio"`
@@ -335,8 +336,8 @@ func measureKernels(cfg Config, sys *System, femX []float64, row *Row) {
 // standIn is a with its diagonal doubled: A + diag(A) is positive definite
 // whenever A is, its scaled condition number is small, and the work of a
 // factorization is the same for any values that do not fail.
-func standIn(a *fem.SymBand) *fem.SymBand {
-	out := &fem.SymBand{N: a.N, K: a.K, Data: slices.Clone(a.Data)}
+func standIn(a *band.Symmetric) *band.Symmetric {
+	out := &band.Symmetric{N: a.N, K: a.K, Data: slices.Clone(a.Data)}
 	for i := range a.N {
 		out.Data[i*(a.K+1)] *= 2
 	}
@@ -355,7 +356,7 @@ func clearKernels(row Row) Row {
 
 // kernelsOn fills row's kernel measurements on a·x = b and returns the
 // refusals, if any; femX, when not nil, is fem's answer to compare.
-func kernelsOn(cfg Config, a *fem.SymBand, b, femX []float64, row *Row) []string {
+func kernelsOn(cfg Config, a *band.Symmetric, b, femX []float64, row *Row) []string {
 	n, k := a.N, a.K
 	reps := max(cfg.Repetitions, 1)
 	var failures []string
@@ -363,11 +364,11 @@ func kernelsOn(cfg Config, a *fem.SymBand, b, femX []float64, row *Row) []string
 	dst := make([]float64, len(a.Data))
 	bandCopy := func() { copy(dst, a.Data) }
 	row.BandBytes = int64(8 * len(a.Data))
-	var f fem.BandLDL
+	var f band.LDL
 	ours := make([]float64, n)
 	oursOp := func() { _ = f.FactorizeSolve(a, ours, b) }
 	if err := f.FactorizeSolve(a, ours, b); err != nil {
-		failures = append(failures, "fem.BandLDL: "+err.Error())
+		failures = append(failures, "band.LDL: "+err.Error())
 	}
 	factor := make([]float64, len(a.Data))
 	theirs := make([]float64, n)
@@ -425,8 +426,8 @@ func displacementVector(s *fem.Solution, p Problem) []float64 {
 
 // gonumBandSolve solves a·x = b by Pbtrf and Pbtrs, which work in place, so
 // the matrix and right-hand side are copied into factor and x first, as
-// BandLDL copies them into its own storage.
-func gonumBandSolve(a *fem.SymBand, b, factor, x []float64) bool {
+// band.LDL copies them into its own storage.
+func gonumBandSolve(a *band.Symmetric, b, factor, x []float64) bool {
 	copy(factor, a.Data)
 	copy(x, b)
 	t, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: a.N, K: a.K, Data: factor, Stride: a.K + 1})
@@ -484,7 +485,7 @@ func measureDense(cfg Config, bm benchModel, n int) (DenseRow, error) {
 	n = a.N
 	progress(cfg, "%s system, %d unknowns: dense Cholesky", bm.name, n)
 	reps := max(cfg.Repetitions, 1)
-	var f fem.BandLDL
+	var f band.LDL
 	ours := make([]float64, n)
 	var failed error
 	oursSeconds := timeOp(reps, cfg.MinBatch, func() { failed = f.FactorizeSolve(a, ours, b) })

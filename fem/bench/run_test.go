@@ -8,7 +8,7 @@ import (
 	"strings"
 	"testing"
 
-	"stave/fem"
+	"stave/fem/band"
 )
 
 // TestQuickRun runs every part at small sizes and checks that the report
@@ -129,13 +129,13 @@ func collectKeys(v any, keys map[string]int) {
 	}
 }
 
-// A system BandLDL refuses (a free chain of springs: singular) is timed on
+// A system band.LDL refuses (a free chain of springs: singular) is timed on
 // the stand-in, its diagonal doubled, and the refusal is kept in the row;
 // a system both factorize is timed as it is.
 func TestKernelsFallBackToStandIn(t *testing.T) {
 	cfg := QuickConfig()
 	chain := func(n int, free bool) *System {
-		a := fem.NewSymBand(n, 1)
+		a := band.NewSymmetric(n, 1)
 		for i := range n - 1 {
 			a.Data[2*i] += 1
 			a.Data[2*i+2] += 1

@@ -1,20 +1,21 @@
-package fem
+package band
 
-// Half-bandwidth 1 (the bar) is factorized from both ends at once, as the
-// beam is (band3.go): rows 0..t−1 downwards, rows n−1..t+1 upwards, row t
-// last. Each direction's pivot waits for the division before it; two chains
-// in one loop let the processor overlap them.
+// A tridiagonal matrix, half-bandwidth 1 (the bar), is factorized from both
+// ends at once, as the scalar half-bandwidth-3 kernel does (twisted3.go):
+// rows 0..t−1 downwards, rows n−1..t+1 upwards, row t last. Each direction's
+// pivot waits for the division before it; two chains in one loop let the
+// processor overlap them.
 //
-// Storage stays in SymBand layout: A[r][r+1] holds the multiplier of pivot r
-// when r < t and of pivot r+1 when r ≥ t; diagonals hold 1/pivot.
+// Storage stays in Symmetric's layout: A[r][r+1] holds the multiplier of
+// pivot r when r < t and of pivot r+1 when r ≥ t; diagonals hold 1/pivot.
 
 // twistRow1 is the row an n×n band-1 matrix eliminates last.
 func twistRow1(n int) int { return (n - 1) / 2 }
 
-// factorTwisted1 factorizes orig (n ≥ 1, half-bandwidth 1) into d. With b
+// factorTridiagonal factorizes orig (n ≥ 1, half-bandwidth 1) into d. With b
 // not nil it solves into x as well, the forward substitution riding in the
 // factorization's sweep beside the pivots' chains.
-func factorTwisted1(d, orig []float64, n int, x, b []float64) error {
+func factorTridiagonal(d, orig []float64, n int, x, b []float64) error {
 	t := twistRow1(n)
 	rhs := b != nil
 	// What the last pivot of each chain takes off the next diagonal,
@@ -60,7 +61,7 @@ func factorTwisted1(d, orig []float64, n int, x, b []float64) error {
 	d[2*t] = 1 / piv
 	if rhs {
 		x[t] = (b[t] - ld*yd - lu*yu) * d[2*t]
-		backwardTwisted1(d, x, n)
+		backwardTridiagonal(d, x, n)
 	}
 	return nil
 }
@@ -76,11 +77,11 @@ func eliminate1(diag, take, a float64) (piv, inv, l, next float64, ok bool) {
 	return piv, 1 / piv, l, l * a, pivotOK(piv, diag)
 }
 
-// solveTwisted1 solves with a factorization from factorTwisted1; x and b may
+// solveTridiagonal solves with a factorization from factorTridiagonal; x and b may
 // be the same slice. Each chain takes two rows a step: with multipliers l₀,
 // l₁ the second row's value is (b₁ − l₁·b₀) + (l₁·l₀)·y, one multiply-add
 // after the carried y instead of two, the rest computed beside the chain.
-func solveTwisted1(d, x, b []float64, n int) {
+func solveTridiagonal(d, x, b []float64, n int) {
 	t := twistRow1(n)
 	upRows := n - 1 - t // t or t+1
 	// Forward: y carried down from row i and up from row j, with the
@@ -115,13 +116,13 @@ func solveTwisted1(d, x, b []float64, n int) {
 		yu, lu = z, d[2*j-1]
 	}
 	x[t] = (b[t] - ld*yd - lu*yu) * d[2*t]
-	backwardTwisted1(d, x, n)
+	backwardTridiagonal(d, x, n)
 }
 
-// backwardTwisted1 is the back substitution of solveTwisted1, from row t
+// backwardTridiagonal is the back substitution of solveTridiagonal, from row t
 // outwards both ways, on the forward solution in x: x_i = z_i − l_i·x_{i+1}
 // below, x_j = z_j − u_j·x_{j−1} above.
-func backwardTwisted1(d, x []float64, n int) {
+func backwardTridiagonal(d, x []float64, n int) {
 	t := twistRow1(n)
 	upRows := n - 1 - t
 	xd, xu := x[t], x[t]

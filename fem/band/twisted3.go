@@ -1,4 +1,4 @@
-package fem
+package band
 
 // Half-bandwidth 3 (the beam) is factorized from both ends at once, a
 // twisted factorization: rows 0..t−1 are eliminated downwards, rows
@@ -8,7 +8,7 @@ package fem
 // elimination order is a symmetric permutation of the rows, so the result is
 // the LDLᵀ factorization of the permuted matrix, as stable as the plain one.
 //
-// Storage stays in SymBand layout: an entry A[r][c] (r < c) holds the
+// Storage stays in Symmetric's layout: an entry A[r][c] (r < c) holds the
 // multiplier of pivot r when r < t (downward rows and their links into the
 // block), of pivot c when c ≥ t+3 (upward rows and theirs), and the block's
 // own factor inside the block; diagonals hold 1/pivot.
@@ -69,7 +69,7 @@ func factorTwisted3(d, orig []float64, n int) error {
 	// t, upward ones from row t+2.
 	m := d[4*t : 4*t+12 : 4*t+12]
 	o := orig[4*t : 4*t+12 : 4*t+12]
-	block := localMatrix{
+	block := [3][3]float64{
 		{o[0] + p0 + w0, o[1] + p1 + v1, o[2] + p2 + u2},
 		{0, o[4] + q0 + v0, o[5] + q1 + u1},
 		{0, 0, o[8] + s0 + u0},

@@ -1,4 +1,4 @@
-package fem
+package band
 
 import "errors"
 
@@ -6,7 +6,7 @@ import "errors"
 // block tridiagonal: half-bandwidth 3 with A[2i+1][2i+4] = 0, nodes coupled
 // only to their neighbours through 2×2 blocks. Such a matrix is factorized
 // node by node, A = L·D·Lᵀ with 2×2 diagonal blocks D: each node costs one
-// division, where the row-by-row kernel (band3.go) pays two per row, and
+// division, where the row-by-row kernel (twisted3.go) pays two per row, and
 // about a third fewer other operations. As there, the nodes are eliminated
 // from both ends at once: nodes 0..m−1 downwards, N−1..m+1 upwards, node m
 // last, two independent chains in one loop.
@@ -23,7 +23,7 @@ import "errors"
 // errNotNodeBlocked says the node-block kernel does not apply: the matrix
 // couples a rotation to the node after next, or a diagonal entry lies outside
 // nodeRange.
-var errNotNodeBlocked = errors.New("fem: the band is not block tridiagonal by nodes of moderate size")
+var errNotNodeBlocked = errors.New("band: the band is not block tridiagonal by nodes of moderate size")
 
 // nodeRange bounds the diagonal entries the node-block kernel takes. It
 // multiplies three entries together (Cᵀ·adj(S)·C); with every diagonal, and
