@@ -89,19 +89,20 @@ func SolveExact(m *Model) (*Exact, error) {
 		return nil, err
 	}
 	e := &Exact{keys: KeyPoints(m)}
+	loads := GatherLoads(m, e.keys)
 	points := make([]keyPoint, len(e.keys))
 	for i, s := range m.Supports {
 		k := &points[e.keyIndex(s.X)]
 		for d := Axial; d <= Rotation; d++ {
 			switch {
 			case s.Kind.Restrains(d):
-				k.restraints = append(k.restraints, restraint{support: i, dof: d, settlement: s.Settlement[d]})
+				k.restraints = append(k.restraints, restraint{support: i, dof: d, settlement: loads.Settlement[i][d]})
 			case s.Kind == Spring && s.Stiffness[d] > 0:
 				k.restraints = append(k.restraints, restraint{support: i, dof: d, compliance: 1 / s.Stiffness[d]})
 			}
 		}
 	}
-	for _, p := range m.PointLoads {
+	for _, p := range loads.Points {
 		k := &points[e.keyIndex(p.X)]
 		k.load[Axial] += p.Axial
 		k.load[Transverse] += p.Transverse
@@ -109,7 +110,7 @@ func SolveExact(m *Model) (*Exact, error) {
 	}
 	e.stretches = make([]exactStretch, len(e.keys)-1)
 	for j := range e.stretches {
-		e.stretches[j] = newStretch(m, e.keys[j], e.keys[j+1])
+		e.stretches[j] = newStretch(m, &loads, j)
 	}
 	e.reactions = make([]Reaction, len(m.Supports))
 	for i, s := range m.Supports {
@@ -155,32 +156,20 @@ func (e *Exact) finite() bool {
 	return true
 }
 
-// newStretch sets up the stretch [a, b] with its section and the particular
-// solution of its (linear) loads.
-func newStretch(m *Model, a, b float64) exactStretch {
+// newStretch sets up stretch j of the loads l with its section and the
+// particular solution of its (linear) loads.
+func newStretch(m *Model, l *Loads, j int) exactStretch {
+	a, b := l.Keys[j], l.Keys[j+1]
 	seg := m.Segments[m.SegmentAt(0.5*(a+b))]
 	sec, mat := seg.Section, seg.Material
 	s := exactStretch{
 		start: a, length: b - a,
 		area: sec.Area, fibre: sec.FibreDistance, secondMoment: sec.SecondMoment,
-		thermalStrain: mat.ThermalExpansion * m.TemperatureChange,
+		thermalStrain: mat.ThermalExpansion * l.TemperatureChange,
 	}
 	ea, ei := mat.Elastic*sec.Area, mat.Elastic*sec.SecondMoment
-	weight := mat.Density * sec.Area // kg/m
-	var axial, transverse [2]float64
-	for j := range axial {
-		axial[j] = weight * m.Gravity[0]
-		transverse[j] = weight * m.Gravity[1]
-	}
-	for _, dl := range m.DistributedLoad {
-		l0, l1 := loadOnStretch(dl.Points, a, b)
-		if dl.Direction == Axial {
-			axial[0], axial[1] = axial[0]+l0, axial[1]+l1
-		} else {
-			transverse[0], transverse[1] = transverse[0]+l0, transverse[1]+l1
-		}
-	}
-	// EA·u'' = −p and EI·w'''' = q.
+	axial, transverse := l.Axial[j], l.Transverse[j]
+	// EA·u″ = −p and EI·w⁗ = q.
 	s.bar = newStretchSolution(exactBar.order, ea, s.length, -axial[0], -axial[1])
 	s.bar.offset = -ea * s.thermalStrain
 	s.beam = newStretchSolution(exactBeam.order, ei, s.length, transverse[0], transverse[1])
@@ -196,20 +185,6 @@ func newStretchSolution(order int, stiffness, h, l0, l1 float64) stretchSolution
 	c[order] = scale * l0 / fallingFactorial(order, order)
 	c[order+1] = scale * (l1 - l0) / fallingFactorial(order+1, order+1)
 	return stretchSolution{stiffness: stiffness, coeff: c}
-}
-
-// loadOnStretch is the intensity of a piecewise-linear load at both ends of
-// the stretch [a, b], on which the load is linear (its break points are key points).
-func loadOnStretch(pts []LoadPoint, a, b float64) (float64, float64) {
-	mid := 0.5 * (a + b)
-	for i := 0; i+1 < len(pts); i++ {
-		p, q := pts[i], pts[i+1]
-		if p.X <= mid && mid <= q.X && q.X > p.X {
-			slope := (q.Intensity - p.Intensity) / (q.X - p.X)
-			return p.Intensity + slope*(a-p.X), p.Intensity + slope*(b-p.X)
-		}
-	}
-	return 0, 0
 }
 
 // keyIndex returns the index of the key point nearest to x.

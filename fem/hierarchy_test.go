@@ -22,19 +22,24 @@ func solveAssembled(t *testing.T, m *Model, mesh Mesh) assembled {
 	if order == 0 {
 		order = LinearBar
 	}
-	els, nodal := elementTable(m, mesh, mesh.X)
+	loads := GatherLoads(m, KeyPoints(m))
+	els, nodal := elementTable(m, mesh, mesh.X, &loads)
 	out := assembled{reactions: make([]Reaction, len(m.Supports))}
 	for i, sup := range m.Supports {
 		out.reactions[i] = Reaction{Support: i, X: sup.X}
 	}
-	for _, p := range []system{barSystem{order}, beamSystem{}} {
-		u, cond, err := solveBanded(m, mesh, els, nodal, p)
+	for _, p := range []Formulation{barFormulation{order}, hermiteBeam{}} {
+		as, err := assemble(m, mesh.X, els, p)
 		if err != nil {
 			t.Fatalf("assembled solve: %v", err)
 		}
+		u := make([]float64, as.n)
+		if err := as.solve(els, nodal, loads.Settlement, u); err != nil {
+			t.Fatalf("assembled solve: %v", err)
+		}
 		assembledReactions(m, mesh, els, p, u, out.reactions)
-		out.cond = max(out.cond, cond)
-		if p.name() == "bar" {
+		out.cond = max(out.cond, as.cond)
+		if p.Problem() == "bar" {
 			out.bar = u
 		} else {
 			out.beam = u
@@ -46,10 +51,10 @@ func solveAssembled(t *testing.T, m *Model, mesh Mesh) assembled {
 // assembledReactions fills p's components of the reactions the plain way:
 // rigid restraints from the element end forces K·u − f at the node less the
 // point loads there, springs as −k·displacement.
-func assembledReactions(m *Model, mesh Mesh, els []elementData, p system, u []float64, reactions []Reaction) {
+func assembledReactions(m *Model, mesh Mesh, els []elementData, p Formulation, u []float64, reactions []Reaction) {
 	for r, sup := range m.Supports {
 		node := nearest(mesh.X, sup.X)
-		for mi, d := range p.motions() {
+		for mi, d := range p.Motions() {
 			dof := p.nodeDof(node, mi)
 			switch {
 			case sup.Kind == Spring:
@@ -66,7 +71,7 @@ func assembledReactions(m *Model, mesh Mesh, els []elementData, p system, u []fl
 					if dof < first || dof >= first+count {
 						continue
 					}
-					k, f := p.local(&els[e])
+					k, f := p.stiffness(&els[e]), p.loads(&els[e])
 					a := dof - first
 					force -= f[a]
 					for b := range count {
@@ -233,7 +238,8 @@ func TestHierarchyStrainEnergy(t *testing.T) {
 		m.Mesh.BarOrder = order
 		s := mustSolve(t, m)
 		ref := solveAssembled(t, m, s.Mesh)
-		els, _ := elementTable(m, s.Mesh, s.Mesh.X)
+		loads := GatherLoads(m, KeyPoints(m))
+		els, _ := elementTable(m, s.Mesh, s.Mesh.X, &loads)
 		stride := order.nodes() - 1
 		want := 0.0
 		for e := range els {
@@ -288,7 +294,8 @@ func TestParallelRefineMatchesSequential(t *testing.T) {
 	for j, i := range keys {
 		keyX[j] = s.Mesh.X[i]
 	}
-	stretches, _ := elementTable(m, meshOn(m, keyX), s.Mesh.X)
+	loads := GatherLoads(m, KeyPoints(m))
+	stretches, _ := elementTable(m, meshOn(m, keyX), s.Mesh.X, &loads)
 	if len(stretches) < 3 || len(s.Mesh.Elements) < parallelRefine {
 		t.Fatalf("%d stretches and %d elements: the test needs several stretches and a mesh refined in parallel", len(stretches), len(s.Mesh.Elements))
 	}

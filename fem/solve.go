@@ -5,8 +5,6 @@ import (
 	"fmt"
 	"math"
 	"math/bits"
-
-	"stave/fem/band"
 )
 
 // Solution is the finite element answer for one model.
@@ -80,10 +78,46 @@ func Solve(m *Model) (*Solution, error) {
 }
 
 // SolveOnMesh solves the model on a given mesh, which must hold a node at
-// every key point (BuildMesh and MeshFromNodes make such meshes). The
-// key-point system is assembled and solved by band.LDL; the nodes between key
-// points follow from the hierarchical basis of hierarchy.go in O(n).
+// every key point (BuildMesh and MeshFromNodes make such meshes): it builds
+// the Structure and solves it for the model's own loads.
 func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
+	st, err := NewStructure(m, mesh)
+	if err != nil {
+		return nil, err
+	}
+	loads := GatherLoads(m, KeyPoints(m))
+	return st.Solve(&loads)
+}
+
+// Structure is a model's member and supports on one mesh, with the
+// key-point stiffness of the bar and of the beam assembled and factorized
+// once. Solve answers any number of load sets on it (load cases, unit loads
+// for influence lines) at the cost of the substitutions and the
+// hierarchical refinement alone: O(n) per load set, and the same answer as
+// a fresh solve to the bit.
+//
+// Only the key points that are not point loads enter the factorized system
+// (hierarchy.go): a point load close to a support would otherwise make a
+// short, stiff stretch there.
+type Structure struct {
+	model Model
+	mesh  Mesh
+	keys  []int     // the fine node of each key point of the system
+	keyX  []float64 // their x, m
+	// coarse is the key-point mesh and stretches its elements, with
+	// geometry and section but no loads.
+	coarse    Mesh
+	stretches []elementData
+	bar, beam Formulation
+	problems  [2]*assembly // bar, beam
+	// condition and warnings are the key-point systems' (see Solution).
+	condition float64
+	warnings  []string
+}
+
+// NewStructure validates m, checks that mesh fits it and that the supports
+// hold it, and assembles and factorizes the key-point systems.
+func NewStructure(m *Model, mesh Mesh) (*Structure, error) {
 	if err := m.Validate(); err != nil {
 		return nil, err
 	}
@@ -97,33 +131,65 @@ func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
 	if err != nil {
 		return nil, err
 	}
-	s := &Solution{Model: m.Clone(), Mesh: mesh, barOrder: m.Mesh.BarOrder, sections: sectionTable(m)}
+	st := &Structure{model: m.Clone(), mesh: mesh, keys: keys, keyX: make([]float64, len(keys))}
+	for j, i := range keys {
+		st.keyX[j] = mesh.X[i]
+	}
+	st.coarse = meshOn(m, st.keyX)
+	st.bar, st.beam = m.Formulations()
+	sections := sectionTable(m, 0)
+	st.stretches = make([]elementData, len(st.coarse.Elements))
+	for j, e := range st.coarse.Elements {
+		st.stretches[j] = elementData{start: e.Start, length: e.End - e.Start, sectionData: sections[e.Segment]}
+	}
+	// The key-point system of the bar is always linear: a quadratic bar's
+	// bubbles are orthogonal to it and solved element by element.
+	for i, form := range []Formulation{barFormulation{LinearBar}, st.beam} {
+		as, err := assemble(m, st.keyX, st.stretches, form)
+		if err != nil {
+			return nil, err
+		}
+		st.problems[i] = as
+		st.condition = max(st.condition, as.cond)
+		if w := conditionWarning(form.Problem(), as.cond); w != "" {
+			st.warnings = append(st.warnings, w)
+		}
+	}
+	return st, nil
+}
+
+// KeyPoints are the points loads must be gathered on for Solve: the model's
+// KeyPoints, m.
+func (st *Structure) KeyPoints() []float64 { return KeyPoints(&st.model) }
+
+// Solve finds the displacements, fields and reactions under the loads l,
+// which must be gathered (GatherLoads) on the structure's KeyPoints and
+// hold one settlement per support.
+func (st *Structure) Solve(l *Loads) (*Solution, error) {
+	m, mesh, keys := &st.model, st.mesh, st.keys
+	if len(l.Settlement) != len(m.Supports) || len(l.Keys) < 2 || math.Abs(l.Keys[len(l.Keys)-1]-m.Length()) > mergeTolerance*m.Length() {
+		return nil, fmt.Errorf("fem: the loads were gathered for another member or other supports: gather them on Structure.KeyPoints")
+	}
+	s := &Solution{Model: st.model, Mesh: mesh, sections: sectionTable(m, l.TemperatureChange), Condition: st.condition}
+	s.Warnings = append(s.Warnings, st.warnings...)
+	s.barOrder = m.Mesh.BarOrder
 	if s.barOrder == 0 {
 		s.barOrder = LinearBar
 	}
-	keyX := make([]float64, len(keys))
-	for j, i := range keys {
-		keyX[j] = mesh.X[i]
-	}
-	coarse := meshOn(m, keyX)
-	stretches, keyPointLoads := elementTable(m, coarse, mesh.X)
+	stretches, keyPointLoads := elementTable(m, st.coarse, mesh.X, l)
 	s.Reactions = make([]Reaction, len(m.Supports))
 	for i, sup := range m.Supports {
 		s.Reactions[i] = Reaction{Support: i, X: sup.X}
 	}
 	s.Displacement = make([][3]float64, len(mesh.X))
-	for _, p := range []system{barSystem{LinearBar}, beamSystem{}} {
-		u, cond, err := solveBanded(m, coarse, stretches, keyPointLoads, p)
-		if err != nil {
+	for _, as := range st.problems {
+		u := make([]float64, as.n)
+		if err := as.solve(stretches, keyPointLoads, l.Settlement, u); err != nil {
 			return nil, err
 		}
-		s.Condition = max(s.Condition, cond)
-		if w := conditionWarning(p.name(), cond); w != "" {
-			s.Warnings = append(s.Warnings, w)
-		}
 		for j, i := range keys {
-			for mi, d := range p.motions() {
-				s.Displacement[i][d] = u[p.nodeDof(j, mi)]
+			for mi, d := range as.form.Motions() {
+				s.Displacement[i][d] = u[as.form.nodeDof(j, mi)]
 			}
 		}
 	}
@@ -131,7 +197,7 @@ func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
 	for j, i := range keys {
 		keyDisp[j] = s.Displacement[i]
 	}
-	staticReactions(m, keyX, stretches, keyPointLoads, keyDisp, s.Reactions)
+	staticReactions(m, st.keyX, stretches, keyPointLoads, keyDisp, s.Reactions)
 	s.fields = make([]elementField, len(mesh.Elements))
 	energy, poison := refineAll(stretchRefiner{x: mesh.X, disp: s.Displacement, fields: s.fields, order: s.barOrder}, stretches, keys)
 	depth := 0
@@ -143,7 +209,7 @@ func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
 		return nil, err
 	}
 	s.Condition += levelRoundOff * float64(depth)
-	s.Equilibrium = equilibrium(m, s.Reactions)
+	s.Equilibrium = equilibrium(l.Resultant(), s.Reactions)
 	return s, nil
 }
 
@@ -168,8 +234,9 @@ func checkFinite(poison float64, s *Solution) error {
 // errNotFinite is the refusal of results that overflowed, by either solver.
 var errNotFinite = errors.New("the results are too large for floating point (a displacement, force, moment or stress is infinite or undefined): check the units and magnitudes of the section, material, springs and loads")
 
-// sectionTable gathers the section data of every segment.
-func sectionTable(m *Model) []sectionData {
+// sectionTable gathers the section data of every segment under a uniform
+// change of temperature dT, K.
+func sectionTable(m *Model, dT float64) []sectionData {
 	out := make([]sectionData, len(m.Segments))
 	for i, seg := range m.Segments {
 		sec, mat := seg.Section, seg.Material
@@ -179,225 +246,16 @@ func sectionTable(m *Model) []sectionData {
 			area:             sec.Area,
 			secondMoment:     sec.SecondMoment,
 			fibre:            sec.FibreDistance,
-			thermalStrain:    mat.ThermalExpansion * m.TemperatureChange,
+			thermalStrain:    mat.ThermalExpansion * dT,
 		}
 	}
 	return out
 }
 
-// system is one of the two independent problems on the mesh.
-type system interface {
-	name() string
-	motions() []Dof // the nodal motions this problem owns, in node order
-	size(elements int) (n, halfBandwidth int)
-	nodeDof(node, motion int) int
-	// element returns the first unknown of element e and how many it has;
-	// an element's unknowns are consecutive.
-	element(e int) (first, count int)
-	local(d *elementData) (localMatrix, localVector)
-}
-
-type barSystem struct{ order ElementOrder }
-
-func (barSystem) name() string               { return "bar" }
-func (barSystem) motions() []Dof             { return []Dof{Axial} }
-func (p barSystem) stride() int              { return p.order.nodes() - 1 }
-func (p barSystem) size(ne int) (int, int)   { return ne*p.stride() + 1, p.stride() }
-func (p barSystem) nodeDof(node, _ int) int  { return node * p.stride() }
-func (p barSystem) element(e int) (int, int) { return e * p.stride(), p.order.nodes() }
-func (p barSystem) local(d *elementData) (localMatrix, localVector) {
-	return d.barStiffness(p.order), d.barLoads(p.order)
-}
-
-type beamSystem struct{}
-
-func (beamSystem) name() string                 { return "beam" }
-func (beamSystem) motions() []Dof               { return []Dof{Transverse, Rotation} }
-func (beamSystem) size(ne int) (int, int)       { return 2*ne + 2, 3 }
-func (beamSystem) nodeDof(node, motion int) int { return 2*node + motion }
-func (beamSystem) element(e int) (int, int)     { return 2 * e, 4 }
-func (beamSystem) local(d *elementData) (localMatrix, localVector) {
-	return d.beamStiffness(), d.beamLoads()
-}
-
-// solveBanded assembles problem p on mesh (with element data els and point
-// loads at the nodes nodal), solves
-// it by band.LDL and returns the unknowns and the condition estimate of the
-// scaled matrix. Solve uses it for the key-point mesh; on a fine mesh it is
-// the plain assembled solution.
-func solveBanded(m *Model, mesh Mesh, els []elementData, nodal [][3]float64, p system) ([]float64, float64, error) {
-	n, kb := p.size(len(els))
-	a := band.NewSymmetric(n, kb)
-	rhs := make([]float64, n)
-	for e := range els {
-		first, count := p.element(e)
-		k, f := p.local(&els[e])
-		for i := range count {
-			rhs[first+i] += f[i]
-			for j := i; j < count; j++ {
-				a.Add(first+i, first+j, k[i][j])
-			}
-		}
-	}
-	for node, load := range nodal {
-		for mi, d := range p.motions() {
-			rhs[p.nodeDof(node, mi)] += load[d]
-		}
-	}
-	type prescribed struct {
-		dof   int
-		value float64
-	}
-	var fixed []prescribed
-	for _, sup := range m.Supports {
-		node := nearest(mesh.X, sup.X)
-		for mi, d := range p.motions() {
-			dof := p.nodeDof(node, mi)
-			switch {
-			case sup.Kind == Spring:
-				a.Add(dof, dof, sup.Stiffness[d])
-			case sup.Kind.Restrains(d):
-				fixed = append(fixed, prescribed{dof, sup.Settlement[d]})
-			}
-		}
-	}
-	// Prescribed motions keep the band: the column times the value moves to
-	// the right-hand side, row and column are cleared, and the diagonal keeps
-	// its own value so the scale of the matrix is not disturbed.
-	isFixed := make([]bool, n)
-	for _, c := range fixed {
-		isFixed[c.dof] = true
-	}
-	for _, c := range fixed {
-		for j := max(0, c.dof-kb); j <= min(n-1, c.dof+kb); j++ {
-			if j == c.dof {
-				continue
-			}
-			i, jj := min(j, c.dof), max(j, c.dof)
-			idx := i*(kb+1) + jj - i
-			if !isFixed[j] {
-				rhs[j] -= a.Data[idx] * c.value
-			}
-			a.Data[idx] = 0
-		}
-	}
-	for _, c := range fixed {
-		rhs[c.dof] = a.Data[c.dof*(kb+1)] * c.value
-	}
-	var f band.LDL
-	u := make([]float64, n)
-	if err := f.FactorizeSolve(a, u, rhs); err != nil {
-		var pe *band.PivotError
-		if errors.As(err, &pe) {
-			return nil, 0, pivotMessage(mesh.X, p, pe)
-		}
-		return nil, 0, err
-	}
-	scale := make([]float64, n)
-	for i := range scale {
-		scale[i] = 1 / math.Sqrt(a.Data[i*(kb+1)])
-	}
-	return u, f.Cond(a, scale), nil
-}
-
-// pivotMessage turns a failed pivot into a message that names the place.
-func pivotMessage(nodes []float64, p system, pe *band.PivotError) error {
-	x := nodes[len(nodes)-1]
-	for node := range nodes {
-		if p.nodeDof(node, 0) >= pe.Row {
-			x = nodes[node]
-			break
-		}
-	}
-	return fmt.Errorf("the %s stiffness matrix is singular to working precision near x = %s (pivot %.3g of diagonal %.3g): check for very soft springs, very stiff contrasts, or supports and loads almost at one point", p.name(), fmtMetres(x), pe.Pivot, pe.Diagonal)
-}
-
-// component returns the part of the point load that acts on motion d.
-func (p PointLoad) component(d Dof) float64 {
-	return [3]float64{p.Axial, p.Transverse, p.Moment}[d]
-}
-
-// elementTable gathers each element's properties and the loads along it,
-// and returns the point loads at each node apart. A point load is placed at
-// the node of fine that holds it (so the key-point mesh and the fine mesh
-// see it at the same x); when no node of mesh is there, it lies inside an
-// element.
-func elementTable(m *Model, mesh Mesh, fine []float64) ([]elementData, [][3]float64) {
-	els := make([]elementData, len(mesh.Elements))
-	nodal := make([][3]float64, len(mesh.X))
-	sections := sectionTable(m)
-	for i, e := range mesh.Elements {
-		seg := m.Segments[e.Segment]
-		weight := seg.Material.Density * seg.Section.Area // kg/m
-		els[i] = elementData{
-			start:          e.Start,
-			length:         e.End - e.Start,
-			sectionData:    sections[e.Segment],
-			axialLoad:      [2]float64{weight * m.Gravity[0], weight * m.Gravity[0]},
-			transverseLoad: [2]float64{weight * m.Gravity[1], weight * m.Gravity[1]},
-		}
-	}
-	for _, p := range m.PointLoads {
-		p.X = fine[nearest(fine, p.X)]
-		node := nearest(mesh.X, p.X)
-		if mesh.X[node] == p.X {
-			for d := Axial; d <= Rotation; d++ {
-				nodal[node][d] += p.component(d)
-			}
-			continue
-		}
-		e := node
-		if p.X < mesh.X[node] {
-			e--
-		}
-		els[e].points = append(els[e].points, p)
-	}
-	for _, d := range m.DistributedLoad {
-		for k := 1; k < len(d.Points); k++ {
-			a, b := d.Points[k-1], d.Points[k]
-			slope := (b.Intensity - a.Intensity) / (b.X - a.X)
-			for e := nearest(mesh.X, a.X); e < nearest(mesh.X, b.X); e++ {
-				target := &els[e].axialLoad
-				if d.Direction == Transverse {
-					target = &els[e].transverseLoad
-				}
-				target[0] += a.Intensity + slope*(mesh.X[e]-a.X)
-				target[1] += a.Intensity + slope*(mesh.X[e+1]-a.X)
-			}
-		}
-	}
-	return els, nodal
-}
-
-// equilibrium sums the applied loads (exact integrals of the model's loads)
-// and the reactions: forces along x and y, and moments about x = 0.
-func equilibrium(m *Model, reactions []Reaction) Equilibrium {
-	var q Equilibrium
-	for _, p := range m.PointLoads {
-		q.Applied[0] += p.Axial
-		q.Applied[1] += p.Transverse
-		q.Applied[2] += p.Moment + p.X*p.Transverse
-	}
-	for _, d := range m.DistributedLoad {
-		for k := 1; k < len(d.Points); k++ {
-			a, b := d.Points[k-1], d.Points[k]
-			h := b.X - a.X
-			force := 0.5 * h * (a.Intensity + b.Intensity)
-			if d.Direction == Axial {
-				q.Applied[0] += force
-				continue
-			}
-			q.Applied[1] += force
-			// ∫x·q dx for q linear on [a, b].
-			q.Applied[2] += h / 6 * (a.Intensity*(2*a.X+b.X) + b.Intensity*(a.X+2*b.X))
-		}
-	}
-	for _, seg := range m.Segments {
-		w := seg.Material.Density * seg.Section.Area * (seg.End - seg.Start)
-		q.Applied[0] += w * m.Gravity[0]
-		q.Applied[1] += w * m.Gravity[1]
-		q.Applied[2] += w * m.Gravity[1] * 0.5 * (seg.Start + seg.End)
-	}
+// equilibrium compares the resultant of the applied loads (Loads.Resultant:
+// forces along x and y, moment about x = 0) with that of the reactions.
+func equilibrium(applied [3]float64, reactions []Reaction) Equilibrium {
+	q := Equilibrium{Applied: applied}
 	for _, r := range reactions {
 		q.Reactions[0] += r.Force[0]
 		q.Reactions[1] += r.Force[1]

@@ -100,13 +100,13 @@ var proppedDeflection = propped * (1 - 3*propped*propped + 2*propped*propped*pro
 
 // memberFacts is what recognition needs to know about a one-segment model.
 type memberFacts struct {
-	length, elastic, area, second, density float64
-	beamSupports                           []placed // supports that act on the beam problem
-	barSupports                            []placed // supports that restrain axial motion
-	points                                 []fem.PointLoad
-	uniform                                float64 // uniform transverse load over the whole member incl. self-weight, N/m
-	axialWeight                            float64 // self-weight along the member, N/m
-	other                                  bool    // something no case covers
+	length, elastic, area, second float64
+	beamSupports                  []placed // supports that act on the beam problem
+	barSupports                   []placed // supports that restrain axial motion
+	points                        []fem.PointLoad
+	uniform                       float64 // uniform transverse load over the whole member incl. self-weight, N/m
+	axialWeight                   float64 // uniform axial load over the whole member incl. self-weight, N/m
+	other                         bool    // something no case covers
 }
 
 type placed struct {
@@ -143,7 +143,7 @@ func facts(m *fem.Model) (memberFacts, bool) {
 		return f, false
 	}
 	seg := m.Segments[0]
-	f.length, f.elastic, f.area, f.second, f.density = m.Length(), seg.Material.Elastic, seg.Section.Area, seg.Section.SecondMoment, seg.Material.Density
+	f.length, f.elastic, f.area, f.second = m.Length(), seg.Material.Elastic, seg.Section.Area, seg.Section.SecondMoment
 	for _, s := range m.Supports {
 		if s.Kind == fem.Spring || s.Settlement != [3]float64{} {
 			return f, false
@@ -165,30 +165,25 @@ func facts(m *fem.Model) (memberFacts, bool) {
 		// A case has either a transverse or an axial point load, never a moment or both.
 		f.other = f.other || p.Moment != 0 || (p.Axial != 0 && p.Transverse != 0)
 	}
-	for _, d := range m.DistributedLoad {
-		q, full := uniformOver(d, f.length)
-		f.other = f.other || !full || d.Direction != fem.Transverse
-		f.uniform += q
-	}
-	f.uniform += f.density * f.area * m.Gravity[1]
-	f.axialWeight = f.density * f.area * m.Gravity[0]
+	loads := fem.GatherLoads(m, fem.KeyPoints(m))
+	var uniformAlong, uniformAcross bool
+	f.axialWeight, uniformAlong = uniformOver(loads.Axial)
+	f.uniform, uniformAcross = uniformOver(loads.Transverse)
+	f.other = f.other || !uniformAlong || !uniformAcross
 	f.other = f.other || len(f.points) > 1 || (len(f.points) == 1 && (f.uniform != 0 || f.axialWeight != 0))
 	return f, true
 }
 
-// uniformOver reports the intensity of d and whether it is uniform over [0, L].
-func uniformOver(d fem.DistributedLoad, length float64) (float64, bool) {
-	if len(d.Points) < 2 {
-		return 0, false
-	}
-	q := d.Points[0].Intensity
-	for _, p := range d.Points {
-		if p.Intensity != q {
+// uniformOver reports whether the line load, given per stretch at both
+// ends (fem.Loads), has one intensity over the whole member, and which.
+func uniformOver(stretches [][2]float64) (float64, bool) {
+	q := stretches[0][0]
+	for _, s := range stretches {
+		if s[0] != q || s[1] != q {
 			return 0, false
 		}
 	}
-	first, last := d.Points[0].X, d.Points[len(d.Points)-1].X
-	return q, math.Abs(first) <= samePlace*length && math.Abs(last-length) <= samePlace*length
+	return q, true
 }
 
 // uniquePlaces sorts ps by position and keeps one entry per position

@@ -1,0 +1,230 @@
+package fem
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"stave/fem/band"
+)
+
+// assembly is one problem's stiffness on a mesh with the supports applied,
+// factorized once: solve gives the unknowns for any load vector at the cost
+// of the substitutions. Assembly and loads are apart so that load cases and
+// unit loads share one factorization.
+type assembly struct {
+	form  Formulation
+	nodes []float64 // x of the mesh's end nodes
+	n, kb int
+	ldl   band.LDL
+	fixed []fixedDof
+	// coupling holds the entries of the fixed columns that were cleared, so
+	// a prescribed motion's column times its value can move to the
+	// right-hand side of any load vector.
+	coupling []coupling
+	cond     float64 // condition estimate of the scaled matrix
+}
+
+// fixedDof is an unknown a rigid restraint holds.
+type fixedDof struct {
+	dof      int
+	support  int
+	motion   Dof
+	diagonal float64 // the matrix's diagonal there, kept as it was
+}
+
+// coupling is the entry at row of the column of fixed[fixed] before it was cleared.
+type coupling struct {
+	row, fixed int
+	value      float64
+}
+
+// assemble builds and factorizes the stiffness of form on the elements els
+// between nodes, with the springs and rigid restraints of m's supports.
+func assemble(m *Model, nodes []float64, els []elementData, form Formulation) (*assembly, error) {
+	a, as := build(m, nodes, els, form)
+	if err := as.ldl.Factorize(a); err != nil {
+		var pe *band.PivotError
+		if errors.As(err, &pe) {
+			return nil, pivotMessage(nodes, form, pe)
+		}
+		return nil, err
+	}
+	scale := make([]float64, as.n)
+	for i := range scale {
+		scale[i] = 1 / math.Sqrt(a.Data[i*(as.kb+1)])
+	}
+	as.cond = as.ldl.Cond(a, scale)
+	return as, nil
+}
+
+// build assembles the stiffness of form on the elements els between nodes
+// with the supports of m applied, and the assembly that will solve it.
+func build(m *Model, nodes []float64, els []elementData, form Formulation) (*band.Symmetric, *assembly) {
+	n, kb := form.size(len(els))
+	a := band.NewSymmetric(n, kb)
+	for e := range els {
+		first, count := form.element(e)
+		k := form.stiffness(&els[e])
+		for i := range count {
+			for j := i; j < count; j++ {
+				a.Add(first+i, first+j, k[i][j])
+			}
+		}
+	}
+	as := &assembly{form: form, nodes: nodes, n: n, kb: kb}
+	for s, sup := range m.Supports {
+		node := nearest(nodes, sup.X)
+		for mi, d := range form.Motions() {
+			dof := form.nodeDof(node, mi)
+			switch {
+			case sup.Kind == Spring:
+				a.Add(dof, dof, sup.Stiffness[d])
+			case sup.Kind.Restrains(d):
+				as.fixed = append(as.fixed, fixedDof{dof: dof, support: s, motion: d})
+			}
+		}
+	}
+	// Prescribed motions keep the band: the column times the value moves to
+	// the right-hand side, row and column are cleared, and the diagonal keeps
+	// its own value so the scale of the matrix is not disturbed.
+	isFixed := make([]bool, n)
+	for _, c := range as.fixed {
+		isFixed[c.dof] = true
+	}
+	for q, c := range as.fixed {
+		for j := max(0, c.dof-kb); j <= min(n-1, c.dof+kb); j++ {
+			if j == c.dof {
+				continue
+			}
+			i, jj := min(j, c.dof), max(j, c.dof)
+			idx := i*(kb+1) + jj - i
+			if !isFixed[j] && a.Data[idx] != 0 {
+				as.coupling = append(as.coupling, coupling{row: j, fixed: q, value: a.Data[idx]})
+			}
+			a.Data[idx] = 0
+		}
+	}
+	for q, c := range as.fixed {
+		as.fixed[q].diagonal = a.Data[c.dof*(kb+1)]
+	}
+	return a, as
+}
+
+// solve writes to u (length as.n) the unknowns under the element loads of
+// els, the point loads at the nodes nodal and the supports' settlements.
+func (as *assembly) solve(els []elementData, nodal [][3]float64, settlement [][3]float64, u []float64) error {
+	return as.ldl.SolveTo(u, as.rhs(els, nodal, settlement))
+}
+
+// rhs is the load vector of els, nodal and settlement with the supports applied.
+func (as *assembly) rhs(els []elementData, nodal [][3]float64, settlement [][3]float64) []float64 {
+	rhs := make([]float64, as.n)
+	for e := range els {
+		first, count := as.form.element(e)
+		f := as.form.loads(&els[e])
+		for i := range count {
+			rhs[first+i] += f[i]
+		}
+	}
+	motions := as.form.Motions()
+	for node, load := range nodal {
+		for mi, d := range motions {
+			rhs[as.form.nodeDof(node, mi)] += load[d]
+		}
+	}
+	for _, c := range as.coupling {
+		f := as.fixed[c.fixed]
+		rhs[c.row] -= c.value * settlement[f.support][f.motion]
+	}
+	for _, f := range as.fixed {
+		rhs[f.dof] = f.diagonal * settlement[f.support][f.motion]
+	}
+	return rhs
+}
+
+// PlainSystem assembles one problem of m ("bar" or "beam") the ordinary way,
+// on every element of mesh, with the supports applied: the system A·x = b
+// whose solution is the finite element answer that Solve finds through the
+// hierarchical basis instead. It is for benchmarks and cross-checks: on fine
+// beam meshes its condition number grows like n⁴ and eliminating it loses
+// every digit (see hierarchy.go).
+func PlainSystem(m *Model, mesh Mesh, problem string) (a *band.Symmetric, b []float64, err error) {
+	if err := m.Validate(); err != nil {
+		return nil, nil, err
+	}
+	if err := checkMesh(m, mesh); err != nil {
+		return nil, nil, err
+	}
+	bar, beam := m.Formulations()
+	form := map[string]Formulation{"bar": bar, "beam": beam}[problem]
+	if form == nil {
+		return nil, nil, fmt.Errorf("fem: there is no %q problem: ask for \"bar\" or \"beam\"", problem)
+	}
+	loads := GatherLoads(m, KeyPoints(m))
+	els, nodal := elementTable(m, mesh, mesh.X, &loads)
+	a, as := build(m, mesh.X, els, form)
+	return a, as.rhs(els, nodal, loads.Settlement), nil
+}
+
+// pivotMessage turns a failed pivot into a message that names the place.
+func pivotMessage(nodes []float64, form Formulation, pe *band.PivotError) error {
+	x := nodes[len(nodes)-1]
+	for node := range nodes {
+		if form.nodeDof(node, 0) >= pe.Row {
+			x = nodes[node]
+			break
+		}
+	}
+	return fmt.Errorf("the %s stiffness matrix is singular to working precision near x = %s (pivot %.3g of diagonal %.3g): check for very soft springs, very stiff contrasts, or supports and loads almost at one point", form.Problem(), fmtMetres(x), pe.Pivot, pe.Diagonal)
+}
+
+// elementTable gathers each element's geometry and section and the loads l
+// along it, and returns the point loads at each node apart. l must be
+// gathered on key points that hold every node of mesh that is a key point
+// (KeyPoints does). A point load is placed at the node of fine that holds it
+// (so the key-point mesh and the fine mesh see it at the same x); when no
+// node of mesh is there, it lies inside an element.
+func elementTable(m *Model, mesh Mesh, fine []float64, l *Loads) ([]elementData, [][3]float64) {
+	els := make([]elementData, len(mesh.Elements))
+	nodal := make([][3]float64, len(mesh.X))
+	sections := sectionTable(m, l.TemperatureChange)
+	j := 0 // the stretch of l holding the element's start
+	for i, e := range mesh.Elements {
+		for j+1 < len(l.Axial) && l.Keys[j+1] <= e.Start {
+			j++
+		}
+		k := j // the stretch of l holding the element's end
+		for k+1 < len(l.Axial) && l.Keys[k+1] < e.End {
+			k++
+		}
+		els[i] = elementData{
+			start:          e.Start,
+			length:         e.End - e.Start,
+			sectionData:    sections[e.Segment],
+			axialLoad:      [2]float64{l.AxialAt(j, e.Start), l.AxialAt(k, e.End)},
+			transverseLoad: [2]float64{l.TransverseAt(j, e.Start), l.TransverseAt(k, e.End)},
+		}
+	}
+	for _, p := range l.Points {
+		p.X = fine[nearest(fine, p.X)]
+		node := nearest(mesh.X, p.X)
+		if mesh.X[node] == p.X {
+			for d := Axial; d <= Rotation; d++ {
+				nodal[node][d] += p.component(d)
+			}
+			continue
+		}
+		e := node
+		if p.X < mesh.X[node] {
+			e--
+		}
+		els[e].points = append(els[e].points, p)
+	}
+	return els, nodal
+}
+
+// component returns the part of the point load that acts on motion d.
+func (p PointLoad) component(d Dof) float64 {
+	return [3]float64{p.Axial, p.Transverse, p.Moment}[d]
+}

@@ -1,0 +1,94 @@
+package fem
+
+// The bar: 2-node linear and 3-node quadratic elements for
+// −(EA (u' − αΔT))' = p, with u the axial displacement.
+
+// barFormulation is the bar element of an order.
+type barFormulation struct{ order ElementOrder }
+
+func (f barFormulation) Name() string {
+	if f.order == QuadraticBar {
+		return "quadratic bar"
+	}
+	return "linear bar"
+}
+
+func (barFormulation) Problem() string    { return "bar" }
+func (barFormulation) Motions() []Dof     { return []Dof{Axial} }
+func (barFormulation) Hierarchical() bool { return true }
+
+// Varies: u is linear (quadratic) and N constant (linear) in a linear
+// (quadratic) bar (Hughes, The Finite Element Method, ch. 1 and 3, from memory).
+func (f barFormulation) Varies(q Quantity) Variation {
+	d := int(f.order) // the degree of u
+	switch q {
+	case QAxialDisplacement:
+		return Variation{Degree: d, Nodal: true}
+	case QAxialForce, QAxialStress:
+		return Variation{Degree: d - 1}
+	}
+	return Variation{Degree: -1}
+}
+
+func (f barFormulation) stride() int                          { return f.order.nodes() - 1 }
+func (f barFormulation) size(ne int) (int, int)               { return ne*f.stride() + 1, f.stride() }
+func (f barFormulation) nodeDof(node, _ int) int              { return node * f.stride() }
+func (f barFormulation) element(e int) (int, int)             { return e * f.stride(), f.order.nodes() }
+func (f barFormulation) stiffness(d *elementData) localMatrix { return d.barStiffness(f.order) }
+func (f barFormulation) loads(d *elementData) localVector     { return d.barLoads(f.order) }
+
+// nodes returns the number of bar nodes of an element of that order.
+func (o ElementOrder) nodes() int {
+	if o == QuadraticBar {
+		return 3
+	}
+	return 2
+}
+
+// barShape returns the bar shape functions and their x-derivatives at ξ ∈ [0, 1]
+// for an element of length h. Quadratic nodes are ordered start, middle, end.
+func barShape(order ElementOrder, xi, h float64) (n, dn [3]float64) {
+	if order == QuadraticBar {
+		n = [3]float64{(1 - xi) * (1 - 2*xi), 4 * xi * (1 - xi), xi * (2*xi - 1)}
+		dn = [3]float64{(4*xi - 3) / h, (4 - 8*xi) / h, (4*xi - 1) / h}
+		return n, dn
+	}
+	return [3]float64{1 - xi, xi}, [3]float64{-1 / h, 1 / h}
+}
+
+// barStiffness is the closed-form bar stiffness: EA/h·[1 −1; −1 1] for the
+// linear element, EA/(3h)·[7 −8 1; −8 16 −8; 1 −8 7] for the quadratic one
+// (Hughes, The Finite Element Method, ch. 1 and 3, from memory).
+func (d *elementData) barStiffness(order ElementOrder) localMatrix {
+	c := d.axialRigidity / d.length
+	if order == QuadraticBar {
+		c /= 3
+		return localMatrix{{7 * c, -8 * c, c}, {-8 * c, 16 * c, -8 * c}, {c, -8 * c, 7 * c}}
+	}
+	return localMatrix{{c, -c}, {-c, c}}
+}
+
+// barLoads is the consistent nodal load vector ∫N·p dx plus the thermal
+// forces ∫N'·EA·αΔT dx = EA·αΔT·(N(end) − N(start)) and N·P for the point
+// loads inside.
+func (d *elementData) barLoads(order ElementOrder) localVector {
+	var f localVector
+	h := d.length
+	for _, g := range gauss3 {
+		n, _ := barShape(order, g.xi, h)
+		p := d.axialLoad[0] + (d.axialLoad[1]-d.axialLoad[0])*g.xi
+		for a := range order.nodes() {
+			f[a] += g.w * h * n[a] * p
+		}
+	}
+	thermal := d.axialRigidity * d.thermalStrain
+	f[0] -= thermal
+	f[order.nodes()-1] += thermal
+	for _, p := range d.points {
+		n, _ := barShape(order, (p.X-d.start)/h, h)
+		for a := range order.nodes() {
+			f[a] += n[a] * p.Axial
+		}
+	}
+	return f
+}

@@ -1,0 +1,94 @@
+package fem
+
+// The beam: 2-node Hermite cubic elements for (EI w″)″ = q, with w the
+// deflection and θ = w′ the rotation.
+
+// hermiteBeam is the Euler–Bernoulli beam element with cubic Hermite shape
+// functions.
+type hermiteBeam struct{}
+
+func (hermiteBeam) Name() string       { return "Hermite beam" }
+func (hermiteBeam) Problem() string    { return "beam" }
+func (hermiteBeam) Motions() []Dof     { return []Dof{Transverse, Rotation} }
+func (hermiteBeam) Hierarchical() bool { return true }
+
+// Varies: w is cubic, θ quadratic, M = EI·w″ linear and V = EI·w‴ constant
+// in a Hermite element (Hughes, The Finite Element Method, ch. 1, from memory).
+func (hermiteBeam) Varies(q Quantity) Variation {
+	switch q {
+	case QDeflection:
+		return Variation{Degree: 3, Nodal: true}
+	case QRotation:
+		return Variation{Degree: 2, Nodal: true}
+	case QBendingMoment, QBendingStress:
+		return Variation{Degree: 1}
+	case QShearForce:
+		return Variation{Degree: 0}
+	}
+	return Variation{Degree: -1}
+}
+
+func (hermiteBeam) size(ne int) (int, int)               { return 2*ne + 2, 3 }
+func (hermiteBeam) nodeDof(node, motion int) int         { return 2*node + motion }
+func (hermiteBeam) element(e int) (int, int)             { return 2 * e, 4 }
+func (hermiteBeam) stiffness(d *elementData) localMatrix { return d.beamStiffness() }
+func (hermiteBeam) loads(d *elementData) localVector     { return d.beamLoads() }
+
+// hermite returns the cubic Hermite shape functions for (w1, θ1, w2, θ2) at
+// ξ ∈ [0, 1] for an element of length h, with their first, second and third
+// x-derivatives.
+func hermite(xi, h float64) (n, d1, d2, d3 [4]float64) {
+	x2 := xi * xi
+	n = hermiteValues(xi, h)
+	d1 = [4]float64{(6*x2 - 6*xi) / h, 1 - 4*xi + 3*x2, (6*xi - 6*x2) / h, 3*x2 - 2*xi}
+	d2 = [4]float64{(12*xi - 6) / (h * h), (6*xi - 4) / h, (6 - 12*xi) / (h * h), (6*xi - 2) / h}
+	d3 = [4]float64{12 / (h * h * h), 6 / (h * h), -12 / (h * h * h), 6 / (h * h)}
+	return n, d1, d2, d3
+}
+
+// hermiteValues is n of hermite alone, free of its divisions: the fields of
+// an element need only the values.
+func hermiteValues(xi, h float64) [4]float64 {
+	x2, x3 := xi*xi, xi*xi*xi
+	return [4]float64{1 - 3*x2 + 2*x3, h * (xi - 2*x2 + x3), 3*x2 - 2*x3, h * (x3 - x2)}
+}
+
+// beamStiffness is the closed-form Hermite beam stiffness for (w1, θ1, w2, θ2)
+// (Hughes, The Finite Element Method; Strang & Fix, ch. 1; from memory).
+func (d *elementData) beamStiffness() localMatrix {
+	h := d.length
+	c := d.flexuralRigidity / (h * h * h)
+	return localMatrix{
+		{12 * c, 6 * h * c, -12 * c, 6 * h * c},
+		{6 * h * c, 4 * h * h * c, -6 * h * c, 2 * h * h * c},
+		{-12 * c, -6 * h * c, 12 * c, -6 * h * c},
+		{6 * h * c, 2 * h * h * c, -6 * h * c, 4 * h * h * c},
+	}
+}
+
+// beamLoads is the consistent nodal load vector ∫N·q dx, plus N·P + N'·C
+// for the point loads inside (the work of a moment C is C·w').
+func (d *elementData) beamLoads() localVector {
+	f := hermiteLoads(d.length, d.transverseLoad[0], d.transverseLoad[1])
+	for _, p := range d.points {
+		n, d1, _, _ := hermite((p.X-d.start)/d.length, d.length)
+		for a := range f {
+			f[a] += n[a]*p.Transverse + d1[a]*p.Moment
+		}
+	}
+	return f
+}
+
+// hermiteLoads is ∫N·q dx for the Hermite shape functions of an element of
+// length h under a load going linearly from q0 to q1: the fixed-end forces of
+// a trapezoidal load (h(7q0+3q1)/20, h²(3q0+2q1)/60, h(3q0+7q1)/20,
+// −h²(2q0+3q1)/60; beam fixed-end force tables, from memory; checked against
+// Gauss–Legendre quadrature in TestHermiteLoadsQuadrature).
+func hermiteLoads(h, q0, q1 float64) localVector {
+	return localVector{
+		h * (7*q0 + 3*q1) / 20,
+		h * h * (3*q0 + 2*q1) / 60,
+		h * (3*q0 + 7*q1) / 20,
+		-h * h * (2*q0 + 3*q1) / 60,
+	}
+}
