@@ -150,10 +150,11 @@ func (as *assembly) rhs(els []elementData, nodal [][3]float64, settlement [][3]f
 // beam meshes its condition number grows like n⁴ and eliminating it loses
 // every digit (see hierarchy.go).
 func PlainSystem(m *Model, mesh Mesh, problem string) (a *band.Symmetric, b []float64, err error) {
-	if err := m.Validate(); err != nil {
+	p, err := Prepare(m)
+	if err != nil {
 		return nil, nil, err
 	}
-	if err := checkMesh(m, mesh); err != nil {
+	if err := checkMesh(m, p.keys, mesh); err != nil {
 		return nil, nil, err
 	}
 	bar, beam := m.Formulations()
@@ -161,10 +162,9 @@ func PlainSystem(m *Model, mesh Mesh, problem string) (a *band.Symmetric, b []fl
 	if form == nil {
 		return nil, nil, fmt.Errorf("fem: there is no %q problem: ask for \"bar\" or \"beam\"", problem)
 	}
-	loads := GatherLoads(m, KeyPoints(m))
-	els, nodal := elementTable(m, mesh, mesh.X, &loads)
+	els, nodal := elementTable(m, mesh, mesh.X, &p.loads)
 	a, as := build(m, mesh.X, els, form)
-	return a, as.rhs(els, nodal, loads.Settlement), nil
+	return a, as.rhs(els, nodal, p.loads.Settlement), nil
 }
 
 // pivotMessage turns a failed pivot into a message that names the place.

@@ -30,11 +30,23 @@
 //
 // # How the pieces fit
 //
-//	Model ─Validate→ BuildMesh (or MeshFromNodes) → key-point system
-//	      (band.Symmetric, band.LDL) → hierarchical refinement of every
-//	      stretch → displacements
-//	      → reactions (statics), equilibrium, strain energy
+//	Model ─Prepare→ Member: validated once, KeyPoints, GatherLoads → Loads
+//	  Member.Mesh (or MeshOn) → Mesh
+//	  Member.Structure(mesh) → Structure: the key-point systems of the bar
+//	      and the beam assembled (band.Symmetric) and factorized (band.LDL)
+//	      once, with the supports applied
+//	  Structure.Solve(loads) → hierarchical refinement of every stretch →
+//	      displacements → reactions (statics), equilibrium, strain energy
 //	      → Solution.At / Solution.Sample (fields)
+//	  Member.Exact() → Exact: the closed-form solution of the same model
+//
+// Solve, SolveOnMesh, BuildMesh, MeshFromNodes and SolveExact are the same
+// steps for one call each. A Structure answers any number of load sets
+// (load cases, unit loads) from one factorization. What a kind of element
+// contributes (its unknowns, stiffness, consistent loads, how each quantity
+// varies inside it, whether the hierarchical path applies) is its
+// Formulation, one file per kind (bar.go, beam.go); the result quantities
+// every output lists are the one table of quantity.go.
 //
 // Validate reports every problem of a model at once (*ValidationError).
 // BuildMesh places nodes at every key point (ends, segment breaks, supports,

@@ -82,14 +82,17 @@ const maxCondition = 1e13
 
 // SolveExact integrates the governing equations of m in closed form.
 func SolveExact(m *Model) (*Exact, error) {
-	if err := m.Validate(); err != nil {
+	p, err := Prepare(m)
+	if err != nil {
 		return nil, err
 	}
-	if err := checkMechanism(m); err != nil {
-		return nil, err
-	}
-	e := &Exact{keys: KeyPoints(m)}
-	loads := GatherLoads(m, e.keys)
+	return p.Exact()
+}
+
+func solveExact(p *Member) (*Exact, error) {
+	m := &p.model
+	e := &Exact{keys: p.keys}
+	loads := &p.loads
 	points := make([]keyPoint, len(e.keys))
 	for i, s := range m.Supports {
 		k := &points[e.keyIndex(s.X)]
@@ -110,7 +113,7 @@ func SolveExact(m *Model) (*Exact, error) {
 	}
 	e.stretches = make([]exactStretch, len(e.keys)-1)
 	for j := range e.stretches {
-		e.stretches[j] = newStretch(m, &loads, j)
+		e.stretches[j] = newStretch(m, loads, j)
 	}
 	e.reactions = make([]Reaction, len(m.Supports))
 	for i, s := range m.Supports {

@@ -52,10 +52,16 @@ func mergeSorted(pts []float64, L float64) []float64 {
 // max(1, round(Elements·len/L)) elements, or ceil(len/MaxElementLength) when
 // that is finer. With neither setting each stretch is one element.
 func BuildMesh(m *Model) (Mesh, error) {
-	if err := m.Validate(); err != nil {
+	p, err := Prepare(m)
+	if err != nil {
 		return Mesh{}, err
 	}
-	keys := KeyPoints(m)
+	return p.Mesh(), nil
+}
+
+// Mesh divides the member as its Model.Mesh asks (see BuildMesh).
+func (p *Member) Mesh() Mesh {
+	m, keys := &p.model, p.keys
 	L := m.Length()
 	x := make([]float64, 0, len(keys)+max(m.Mesh.Elements, 0))
 	x = append(x, keys[0])
@@ -75,16 +81,23 @@ func BuildMesh(m *Model) (Mesh, error) {
 		}
 		x = append(x, b)
 	}
-	return meshOn(m, x), nil
+	return meshOn(m, x)
 }
 
 // MeshFromNodes builds a mesh on caller-chosen node positions x (increasing,
 // within [0, L]); key points missing from x are added, so the result can be
 // solved with SolveOnMesh. It is meant for adaptive refinement.
 func MeshFromNodes(m *Model, x []float64) (Mesh, error) {
-	if err := m.Validate(); err != nil {
+	p, err := Prepare(m)
+	if err != nil {
 		return Mesh{}, err
 	}
+	return p.MeshOn(x)
+}
+
+// MeshOn builds a mesh on the node positions x (see MeshFromNodes).
+func (p *Member) MeshOn(x []float64) (Mesh, error) {
+	m := &p.model
 	L := m.Length()
 	tol := mergeTolerance * L
 	for i, xi := range x {
@@ -97,7 +110,7 @@ func MeshFromNodes(m *Model, x []float64) (Mesh, error) {
 			return Mesh{}, fmt.Errorf("fem: node %d (x = %s) lies before node %d (x = %s): list nodes in increasing x", i+1, fmtMetres(xi), i, fmtMetres(x[i-1]))
 		}
 	}
-	keys := KeyPoints(m)
+	keys := p.keys
 	all := make([]float64, 0, len(x)+len(keys))
 	all = append(all, keys...)
 	// Nodes that nearly coincide with a key point give way to it.
@@ -140,8 +153,9 @@ func nearest(xs []float64, x float64) int {
 	return i
 }
 
-// checkMesh makes sure a caller-supplied mesh is one meshOn could have made.
-func checkMesh(m *Model, mesh Mesh) error {
+// checkMesh makes sure a caller-supplied mesh is one meshOn could have made
+// for m with key points keys.
+func checkMesh(m *Model, keys []float64, mesh Mesh) error {
 	n := len(mesh.Elements)
 	if n == 0 || len(mesh.X) != n+1 {
 		return errors.New("fem: the mesh has no elements or its node list does not match them: build it with BuildMesh or MeshFromNodes")
@@ -156,7 +170,7 @@ func checkMesh(m *Model, mesh Mesh) error {
 			return fmt.Errorf("fem: element %d of the mesh is inconsistent (x = %s to %s): rebuild the mesh", i+1, fmtMetres(e.Start), fmtMetres(e.End))
 		}
 	}
-	for _, k := range KeyPoints(m) {
+	for _, k := range keys {
 		if math.Abs(mesh.X[nearest(mesh.X, k)]-k) > tol {
 			return fmt.Errorf("fem: the mesh has no node at the key point x = %s: build it with BuildMesh or MeshFromNodes", fmtMetres(k))
 		}

@@ -79,7 +79,7 @@ func TestBuildMesh(t *testing.T) {
 					t.Fatalf("nodes %v, want %v", mesh.X, c.want)
 				}
 			}
-			if err := checkMesh(m, mesh); err != nil {
+			if err := checkMesh(m, KeyPoints(m), mesh); err != nil {
 				t.Error(err)
 			}
 		})

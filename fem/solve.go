@@ -78,15 +78,13 @@ func Solve(m *Model) (*Solution, error) {
 }
 
 // SolveOnMesh solves the model on a given mesh, which must hold a node at
-// every key point (BuildMesh and MeshFromNodes make such meshes): it builds
-// the Structure and solves it for the model's own loads.
+// every key point (BuildMesh and MeshFromNodes make such meshes).
 func SolveOnMesh(m *Model, mesh Mesh) (*Solution, error) {
-	st, err := NewStructure(m, mesh)
+	p, err := Prepare(m)
 	if err != nil {
 		return nil, err
 	}
-	loads := GatherLoads(m, KeyPoints(m))
-	return st.Solve(&loads)
+	return p.Solve(mesh)
 }
 
 // Structure is a model's member and supports on one mesh, with the
@@ -104,6 +102,8 @@ type Structure struct {
 	mesh  Mesh
 	keys  []int     // the fine node of each key point of the system
 	keyX  []float64 // their x, m
+	// keyPoints are the model's KeyPoints, point loads included.
+	keyPoints []float64
 	// coarse is the key-point mesh and stretches its elements, with
 	// geometry and section but no loads.
 	coarse    Mesh
@@ -118,20 +118,23 @@ type Structure struct {
 // NewStructure validates m, checks that mesh fits it and that the supports
 // hold it, and assembles and factorizes the key-point systems.
 func NewStructure(m *Model, mesh Mesh) (*Structure, error) {
-	if err := m.Validate(); err != nil {
+	p, err := Prepare(m)
+	if err != nil {
 		return nil, err
 	}
-	if err := checkMesh(m, mesh); err != nil {
-		return nil, err
-	}
-	if err := checkMechanism(m); err != nil {
+	return p.Structure(mesh)
+}
+
+func newStructure(p *Member, mesh Mesh) (*Structure, error) {
+	m := &p.model
+	if err := checkMesh(m, p.keys, mesh); err != nil {
 		return nil, err
 	}
 	keys, err := keyNodes(m, mesh.X)
 	if err != nil {
 		return nil, err
 	}
-	st := &Structure{model: m.Clone(), mesh: mesh, keys: keys, keyX: make([]float64, len(keys))}
+	st := &Structure{model: *m, mesh: mesh, keys: keys, keyX: make([]float64, len(keys)), keyPoints: p.keys}
 	for j, i := range keys {
 		st.keyX[j] = mesh.X[i]
 	}
@@ -159,8 +162,8 @@ func NewStructure(m *Model, mesh Mesh) (*Structure, error) {
 }
 
 // KeyPoints are the points loads must be gathered on for Solve: the model's
-// KeyPoints, m.
-func (st *Structure) KeyPoints() []float64 { return KeyPoints(&st.model) }
+// KeyPoints, m. They are shared, not copied: do not change them.
+func (st *Structure) KeyPoints() []float64 { return st.keyPoints }
 
 // Solve finds the displacements, fields and reactions under the loads l,
 // which must be gathered (GatherLoads) on the structure's KeyPoints and

@@ -1,0 +1,60 @@
+package fem
+
+// Member is a model made ready for solving: validated once, its key points
+// found and its loads gathered once. Every solve of a model starts from one,
+// so the finite element solve, the exact solution and the meshes built for
+// them share that work: Prepare, then Mesh, Solve and Exact.
+type Member struct {
+	model Model // a copy: later edits of the caller's model leave it alone
+	keys  []float64
+	loads Loads
+	// mechanism is why the supports cannot hold the member, or nil.
+	mechanism error
+}
+
+// Prepare validates m and gathers what every solve of it needs. A model
+// whose supports leave it free to move is prepared (it can still be meshed
+// and drawn); its Solve and Exact return the *MechanismError.
+func Prepare(m *Model) (*Member, error) {
+	if err := m.Validate(); err != nil {
+		return nil, err
+	}
+	p := &Member{model: m.Clone(), mechanism: checkMechanism(m)}
+	p.keys = KeyPoints(&p.model)
+	p.loads = GatherLoads(&p.model, p.keys)
+	return p, nil
+}
+
+// Model is the prepared model. It is shared, not copied: do not change it.
+func (p *Member) Model() *Model { return &p.model }
+
+// Loads are the model's loads gathered on its key points. They are shared,
+// not copied: do not change them.
+func (p *Member) Loads() *Loads { return &p.loads }
+
+// Structure assembles and factorizes the key-point systems on mesh, which
+// must come from this member's Mesh or MeshOn (see NewStructure).
+func (p *Member) Structure(mesh Mesh) (*Structure, error) {
+	if p.mechanism != nil {
+		return nil, p.mechanism
+	}
+	return newStructure(p, mesh)
+}
+
+// Solve solves the member under its own loads on mesh.
+func (p *Member) Solve(mesh Mesh) (*Solution, error) {
+	st, err := p.Structure(mesh)
+	if err != nil {
+		return nil, err
+	}
+	return st.Solve(&p.loads)
+}
+
+// Exact integrates the governing equations of the member in closed form
+// (see SolveExact).
+func (p *Member) Exact() (*Exact, error) {
+	if p.mechanism != nil {
+		return nil, p.mechanism
+	}
+	return solveExact(p)
+}
