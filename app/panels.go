@@ -430,24 +430,6 @@ type readout struct {
 	grid *widget.TextGrid
 }
 
-type quantity struct {
-	name string
-	q    units.Kind
-	get  func(f fem.Fields) float64
-}
-
-var readoutQuantities = []quantity{
-	{"u axial", units.Deflection, func(f fem.Fields) float64 { return f.AxialDisplacement }},
-	{"w deflection", units.Deflection, func(f fem.Fields) float64 { return f.Deflection }},
-	{"θ rotation", units.Rotation, func(f fem.Fields) float64 { return f.Rotation }},
-	{"N axial force", units.Force, func(f fem.Fields) float64 { return f.AxialForce }},
-	{"V shear force", units.Force, func(f fem.Fields) float64 { return f.ShearForce }},
-	{"M bending", units.Moment, func(f fem.Fields) float64 { return f.BendingMoment }},
-	{"σ axial N/A", units.Stress, func(f fem.Fields) float64 { return f.AxialStress }},
-	{"σ bending Mc/I", units.Stress, func(f fem.Fields) float64 { return f.BendingStress }},
-	{"σ combined", units.Stress, func(f fem.Fields) float64 { return f.CombinedStress }},
-}
-
 func newReadout() *readout {
 	return &readout{grid: widget.NewTextGrid()}
 }
@@ -476,12 +458,17 @@ func (r *readout) show(w *Window) {
 	x := d.hoverX
 	fe := a.solution.At(x, fem.Right)
 	lines := []string{readoutLine("at "+w.units.Format(units.Position, x), "FE", "exact", "")}
-	for _, q := range readoutQuantities {
+	var ex fem.Fields
+	if a.exact != nil {
+		ex = a.exact.At(x, fem.Right)
+	}
+	for _, q := range fem.Quantities() {
+		info := q.Info()
 		exact := "—"
 		if a.exact != nil {
-			exact = shortNumber(w.units.ToDisplay(q.q, q.get(a.exact.At(x, fem.Right))))
+			exact = shortNumber(w.units.ToDisplay(info.Unit, q.Of(&ex)))
 		}
-		lines = append(lines, readoutLine(q.name, shortNumber(w.units.ToDisplay(q.q, q.get(fe))), exact, w.units.Unit(q.q).Symbol))
+		lines = append(lines, readoutLine(info.Label, shortNumber(w.units.ToDisplay(info.Unit, q.Of(&fe))), exact, w.units.Unit(info.Unit).Symbol))
 	}
 	r.grid.SetText(strings.Join(lines, "\n"))
 }

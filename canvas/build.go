@@ -92,7 +92,7 @@ func Build(in Input, v View) *Scene {
 	if in.Solution != nil {
 		qs := []quantity{deflectionQuantity}
 		for _, st := range lay.strips {
-			qs = append(qs, st.diagram.quantity)
+			qs = append(qs, sampled(st.diagram.quantity))
 		}
 		cs := in.Cache.curves(in.Solution, v, qs)
 		b.deflection, b.feCurves = cs[0], cs[1:]

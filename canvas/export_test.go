@@ -45,10 +45,10 @@ func TestWriteCSVMatchesSolution(t *testing.T) {
 			t.Fatalf("%s: row 5 is at x = %g, want the second element's start %g", u.Name, x, el.Start)
 		}
 		fe, ex := in.Solution.At(el.Start, fem.Right), in.Exact.At(el.Start, fem.Right)
-		for i, c := range csvColumns {
+		for i, q := range fem.Quantities() {
 			for k, f := range []fem.Fields{fe, ex} {
-				got := u.FromDisplay(c.unit, parse(t, row[1+2*i+k]))
-				want := c.get(f)
+				got := u.FromDisplay(q.Info().Unit, parse(t, row[1+2*i+k]))
+				want := q.Of(&f)
 				if math.Abs(got-want) > 1e-12*math.Max(1, math.Abs(want)) {
 					t.Errorf("%s: column %q is %g in SI, the solver's At gives %g", u.Name, header[1+2*i+k], got, want)
 				}

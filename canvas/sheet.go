@@ -230,20 +230,6 @@ func (sh *sheet) modelTable(m *fem.Model, u units.System) {
 	}
 }
 
-// summaryUnits maps fem.Summary quantity names to display quantities.
-var summaryUnits = map[string]units.Kind{
-	"AxialDisplacement": units.Deflection, "Deflection": units.Deflection, "Rotation": units.Rotation,
-	"AxialForce": units.Force, "ShearForce": units.Force, "BendingMoment": units.Moment,
-	"AxialStress": units.Stress, "BendingStress": units.Stress, "CombinedStress": units.Stress,
-}
-
-// summaryNames are the trade's words for the fem.Summary quantity names.
-var summaryNames = map[string]string{
-	"AxialDisplacement": "axial displacement u", "Deflection": "deflection w", "Rotation": "rotation",
-	"AxialForce": "axial force N", "ShearForce": "shear force V", "BendingMoment": "bending moment M",
-	"AxialStress": "axial stress N/A", "BendingStress": "bending stress Mc/I", "CombinedStress": "combined stress",
-}
-
 func (sh *sheet) resultsTable(sum fem.Summary, u units.System) {
 	f := u.Format
 	sh.heading("Results")
@@ -257,8 +243,8 @@ func (sh *sheet) resultsTable(sum fem.Summary, u units.System) {
 	xs = []float32{sheetEdge, sheetEdge + 110, sheetEdge + 200, sheetEdge + 300, sheetEdge + 390}
 	sh.row([]string{"quantity", "largest", "at", "smallest", "at"}, xs, sheetSmall, faintColour, true)
 	for _, e := range sum.Extremes {
-		q := summaryUnits[e.Quantity]
-		sh.row([]string{summaryNames[e.Quantity], f(q, e.Max), f(units.Position, e.XMax), f(q, e.Min), f(units.Position, e.XMin)},
+		q := e.Quantity.Info().Unit
+		sh.row([]string{quantityWords(e.Quantity), f(q, e.Max), f(units.Position, e.XMax), f(q, e.Min), f(units.Position, e.XMin)},
 			xs, sheetSmall, inkColour, false)
 	}
 	sh.y += 3

@@ -127,7 +127,7 @@ func TestDeflectionLabelMatchesSummary(t *testing.T) {
 		s := Build(in, v)
 		var peak fem.Extreme
 		for _, e := range fem.Summarize(in.Solution, nil).Extremes {
-			if e.Quantity == "Deflection" {
+			if e.Quantity == fem.QDeflection {
 				peak = e
 			}
 		}

@@ -100,22 +100,6 @@ func writeJSON(w io.Writer, v any) error {
 	return enc.Encode(v)
 }
 
-// extremeQuantity maps a summary quantity to its display quantity and a plain name.
-var extremeQuantity = map[string]struct {
-	label string
-	q     units.Kind
-}{
-	"AxialDisplacement": {"axial displacement", units.Deflection},
-	"Deflection":        {"deflection", units.Deflection},
-	"Rotation":          {"rotation", units.Rotation},
-	"AxialForce":        {"axial force", units.Force},
-	"ShearForce":        {"shear force", units.Force},
-	"BendingMoment":     {"bending moment", units.Moment},
-	"AxialStress":       {"axial stress", units.Stress},
-	"BendingStress":     {"bending stress", units.Stress},
-	"CombinedStress":    {"combined stress", units.Stress},
-}
-
 func printSummary(w io.Writer, path string, s fem.Summary, u units.System) {
 	pos := func(x float64) string { return u.Format(units.Position, x) }
 	force := func(v float64) string { return u.Format(units.Force, v) }
@@ -136,8 +120,8 @@ func printSummary(w io.Writer, path string, s fem.Summary, u units.System) {
 	fmt.Fprintln(tw, "\nExtremes along the member")
 	fmt.Fprintln(tw, "  quantity\tlargest\tat x\tsmallest\tat x")
 	for _, e := range s.Extremes {
-		q := extremeQuantity[e.Quantity]
-		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\n", q.label, u.Format(q.q, e.Max), pos(e.XMax), u.Format(q.q, e.Min), pos(e.XMin))
+		q := e.Quantity.Info()
+		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\n", q.Name, u.Format(q.Unit, e.Max), pos(e.XMax), u.Format(q.Unit, e.Min), pos(e.XMin))
 	}
 	tw.Flush()
 
