@@ -24,9 +24,6 @@ type ExportOptions struct {
 	// gives 1600 × 1067 pixels for the default size. Calculation sheets keep
 	// their own A4 layout and density (canvas.WriteSheet).
 	DPI float64
-	// Panels chooses the diagrams under the member; nil takes the overlays
-	// switched on in the project.
-	Panels *canvas.ExportPanels
 }
 
 // Export defaults.
@@ -73,7 +70,7 @@ func Export(w io.Writer, p *storage.Project, kind string, opts ExportOptions) er
 	}
 	u := unitSystem(p.View.Units)
 	a := analyse(request{model: p.Model.Clone(), opts: checkOptionsFor(p.View, u)})
-	return writeExport(w, exportSource{project: p, analysis: &a, rows: checkRows(&a), layers: layersFrom(p.View.Overlays), units: u}, kind, opts)
+	return writeExport(w, exportSource{project: p, analysis: &a, rows: checkRows(&a), dimensions: true, units: u}, kind, opts)
 }
 
 func exportKindList() string {
@@ -92,15 +89,16 @@ type exportSource struct {
 	analysis *analysis
 	pending  *request // the analysis still to run when analysis is nil (see finish)
 	rows     []checkRow
-	layers   canvas.Layers
-	units    units.System
+	// dimensions draws the dimension lines (see Window.dimensions).
+	dimensions bool
+	units      units.System
 }
 
 // resultInput is the drawing of project p with analysis a (nil before the
 // first result) and its check rows: the one place where results become a
 // canvas.Input, for the window and for exports.
-func resultInput(p *storage.Project, a *analysis, rows []checkRow, layers canvas.Layers, u units.System) canvas.Input {
-	in := canvas.Input{Model: &p.Model, Layers: layers, Magnification: p.View.Magnification, Units: u}
+func resultInput(p *storage.Project, a *analysis, rows []checkRow, dimensions bool, u units.System) canvas.Input {
+	in := canvas.Input{Model: &p.Model, Overlays: p.View.Overlays, Dimensions: dimensions, Magnification: p.View.Magnification, Units: u}
 	if a != nil && len(p.Model.Segments) > 0 {
 		in.Solution, in.Exact = a.solution, a.exact
 		in.Problem = a.problem()
@@ -121,23 +119,18 @@ func writeExport(w io.Writer, src exportSource, kind string, opts ExportOptions)
 	if err != nil {
 		return err
 	}
-	panels := panelsFrom(src.layers)
-	if opts.Panels != nil {
-		panels = *opts.Panels
-	}
-	in := resultInput(src.project, src.analysis, src.rows, src.layers, src.units)
+	in := resultInput(src.project, src.analysis, src.rows, src.dimensions, src.units)
 	if len(src.project.Model.Segments) == 0 {
 		return fmt.Errorf("the project has no member to export: draw one first")
 	}
 	switch kind {
 	case "png", "svg", "pdf":
-		return writeDrawing(w, kind, in, panels, opts)
+		return writeDrawing(w, kind, in, opts)
 	case "sheet-pdf", "sheet-png":
 		n := src.project.Notes
 		return canvas.WriteSheet(w, strings.TrimPrefix(kind, "sheet-"), canvas.SheetInput{
 			Input:  in,
 			Notes:  canvas.SheetNotes{Project: n.Project, Mark: n.Member, Engineer: n.Engineer, Date: n.Date, Version: Version},
-			Panels: panels,
 			Checks: flaggedChecks(src.rows),
 		})
 	case "csv":
@@ -165,16 +158,10 @@ func (o ExportOptions) withDefaults() (ExportOptions, error) {
 	return o, nil
 }
 
-// writeDrawing draws in with the chosen panels fitted to the page, without
+// writeDrawing draws in with its overlays fitted to the page, without
 // the selection, the mouse position or a highlighted check.
-func writeDrawing(w io.Writer, format string, in canvas.Input, panels canvas.ExportPanels, opts ExportOptions) error {
-	return canvas.WriteImage(w, format, in, panels, opts.Width, opts.Height, opts.DPI/72)
-}
-
-// panelsFrom are the diagrams switched on in l.
-func panelsFrom(l canvas.Layers) canvas.ExportPanels {
-	return canvas.ExportPanels{Deformed: l.Deformed, AxialForce: l.AxialForce, ShearForce: l.ShearForce,
-		BendingMoment: l.BendingMoment, Stress: l.Stress}
+func writeDrawing(w io.Writer, format string, in canvas.Input, opts ExportOptions) error {
+	return canvas.WriteImage(w, format, in, opts.Width, opts.Height, opts.DPI/72)
 }
 
 // flaggedChecks are the failed and warned rows, one sentence each, the worst first.

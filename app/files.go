@@ -311,7 +311,7 @@ func (w *Window) replaceProject(p *storage.Project, path string) {
 	w.selected = canvasNone
 	w.highlight = [2]float64{}
 	w.units = unitSystem(w.project.View.Units)
-	w.layers = layersFrom(w.project.View.Overlays)
+	w.dimensions = true
 	w.build()
 	w.setModel(w.project.Model)
 	w.draw.fit()
@@ -332,7 +332,6 @@ func (w *Window) saveAs(then func()) {
 }
 
 func (w *Window) writeProject(path string, then func()) {
-	w.project.View.Overlays = overlaysFrom(w.layers)
 	if err := storage.Save(path, &w.project); err != nil {
 		dialog.ShowError(fmt.Errorf("the member was not saved: %w", err), w.win)
 		return
@@ -432,7 +431,6 @@ func (w *Window) autosave() {
 	if !w.dirty() {
 		return
 	}
-	w.project.View.Overlays = overlaysFrom(w.layers)
 	if err := storage.WriteRecovery(w.recoveryDir, &w.project, w.path); err != nil {
 		w.setStatus("autosave failed: %v", err)
 	}
@@ -490,7 +488,7 @@ func (w *Window) exportMenu() *fyne.Menu {
 // on any goroutine.
 func (w *Window) exportSource() exportSource {
 	p := cloneProject(w.project)
-	src := exportSource{project: &p, layers: w.layers, units: w.units}
+	src := exportSource{project: &p, dimensions: w.dimensions, units: w.units}
 	if a := w.result; a != nil && a.seq == w.pending && a.complete {
 		src.analysis = a
 	} else {

@@ -216,7 +216,7 @@ func (c *controls) layerBar() fyne.CanvasObject {
 		c.layerChecks[on] = ch
 		return ch
 	}
-	l := &w.layers
+	o := &w.project.View.Overlays
 	c.magnify = widget.NewSlider(0, 4) // log10 of the magnification
 	c.magnify.Step = 0.05
 	c.magnify.OnChanged = func(v float64) {
@@ -233,10 +233,10 @@ func (c *controls) layerBar() fyne.CanvasObject {
 	c.showMagnification()
 	return container.NewVBox(
 		container.NewGridWithColumns(4,
-			toggle("Deflected shape", &l.Deformed), toggle("Axial force N", &l.AxialForce),
-			toggle("Shear force V", &l.ShearForce), toggle("Bending moment M", &l.BendingMoment),
-			toggle("Stress σ", &l.Stress), toggle("Nodes", &l.Nodes),
-			toggle("Exact vs FE gap", &l.ExactBand), toggle("Dimensions", &l.Dimensions)),
+			toggle("Deflected shape", &o.DeformedShape), toggle("Axial force N", &o.AxialForce),
+			toggle("Shear force V", &o.ShearForce), toggle("Bending moment M", &o.BendingMoment),
+			toggle("Stress σ", &o.Stress), toggle("Nodes", &o.Nodes),
+			toggle("Exact vs FE gap", &o.ExactBand), toggle("Dimensions", &w.dimensions)),
 		container.NewBorder(nil, nil, widget.NewLabel("Deflection scale"), container.NewHBox(c.magnifyText, auto, c.unitSelect), c.magnify))
 }
 
@@ -264,7 +264,7 @@ func (c *controls) showGrid() {
 	}
 }
 
-// showLayers brings the overlay switches in line with the window's layers.
+// showLayers brings the overlay switches in line with the project's overlays.
 func (c *controls) showLayers() {
 	for on, ch := range c.layerChecks {
 		ch.SetChecked(*on)

@@ -226,7 +226,7 @@ func (w *Window) adaptiveDone(m fem.Model, target float64, v study.Versus, err e
 	current := reflect.DeepEqual(m, w.project.Model)
 	if current {
 		w.adaptNodes = v.Adaptive.Nodes
-		w.layers.Nodes = true
+		w.project.View.Overlays.Nodes = true
 		w.ui.showLayers()
 		w.resubmit()
 		w.setStatus("solving on the adaptive mesh of %d elements; any edit of the model goes back to uniform meshing", len(v.Adaptive.Nodes)-1)

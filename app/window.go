@@ -38,8 +38,10 @@ type Window struct {
 	selected canvas.Ref
 	tool     tool
 	kind     fem.SupportKind // support kind the support tool places
-	layers   canvas.Layers
-	units    units.System
+	// dimensions switches the dimension lines and the scale bar: a switch
+	// of the window only, which files do not keep (exports draw them).
+	dimensions bool
+	units      units.System
 	// highlight is the x range of the selected check, m.
 	highlight [2]float64
 	// adaptNodes is the mesh of the last adaptive refinement, solved on
@@ -81,7 +83,7 @@ func newWindow(a fyne.App, p *storage.Project, path string, o options) *Window {
 	w.project = cloneProject(*p)
 	w.saved = cloneProject(*p)
 	w.units = unitSystem(w.project.View.Units)
-	w.layers = layersFrom(w.project.View.Overlays)
+	w.dimensions = true
 	w.win = a.NewWindow("Stave")
 	w.draw = newDrawing(w)
 	w.solver = newSolver(analysisStages, w.post, w.deliver)
@@ -117,19 +119,8 @@ func unitSystem(u storage.UnitSystem) units.System {
 	return units.SI
 }
 
-func layersFrom(o storage.Overlays) canvas.Layers {
-	return canvas.Layers{Deformed: o.DeformedShape, AxialForce: o.AxialForce, ShearForce: o.ShearForce,
-		BendingMoment: o.BendingMoment, Stress: o.Stress, Nodes: o.Nodes, ExactBand: o.ExactBand, Dimensions: true}
-}
-
-func overlaysFrom(l canvas.Layers) storage.Overlays {
-	return storage.Overlays{DeformedShape: l.Deformed, AxialForce: l.AxialForce, ShearForce: l.ShearForce,
-		BendingMoment: l.BendingMoment, Stress: l.Stress, Nodes: l.Nodes, ExactBand: l.ExactBand}
-}
-
 // dirty reports unsaved changes.
 func (w *Window) dirty() bool {
-	w.project.View.Overlays = overlaysFrom(w.layers)
 	return !reflect.DeepEqual(w.project, w.saved)
 }
 
@@ -290,7 +281,7 @@ func (w *Window) checkOptions() check.Options {
 
 // sceneInput gathers what the drawing shows.
 func (w *Window) sceneInput() canvas.Input {
-	in := resultInput(&w.project, w.result, w.checks, w.layers, w.units)
+	in := resultInput(&w.project, w.result, w.checks, w.dimensions, w.units)
 	if a := w.result; a != nil && a.seq != w.pending {
 		// Results of a slightly older model while the new one is solved:
 		// they follow the drag smoothly and are replaced within moments.

@@ -9,6 +9,7 @@ import (
 
 	"stave/fem"
 	"stave/fem/units"
+	"stave/storage"
 )
 
 // Colours, chosen to read on white paper and on the white drawing area.
@@ -78,7 +79,7 @@ func Build(in Input, v View) *Scene {
 	if in.Model == nil {
 		return b.s
 	}
-	lay := layout(in.Layers, v, reactionRows(in))
+	lay := layout(in.Overlays, v, reactionRows(in))
 	b.s.SketchBottom = lay.sketchBottom
 	b.s.MemberY = lay.memberY
 	if in.Highlight != [2]float64{} {
@@ -222,7 +223,7 @@ type stripPlace struct {
 	top, bottom float32
 }
 
-func layout(l Layers, v View, rows int) layoutBands {
+func layout(l storage.Overlays, v View, rows int) layoutBands {
 	var on []diagram
 	for _, d := range diagramsList {
 		if d.enabled(l) {

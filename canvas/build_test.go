@@ -172,7 +172,7 @@ func BenchmarkBuild(b *testing.B) {
 func TestDeflectedShapeBreaksAroundSegmentNames(t *testing.T) {
 	m := demoModel(40)
 	in := solved(t, m)
-	in.Layers.Deformed = true
+	in.Overlays.DeformedShape = true
 	v := NewView(1200, 900)
 	v.Fit(m)
 	// Magnified so that the curve meets the middle of the name S1.

@@ -11,6 +11,7 @@ import (
 
 	"stave/fem"
 	"stave/fem/units"
+	"stave/storage"
 )
 
 // diagram is one result strip under the sketch.
@@ -21,14 +22,25 @@ type diagram struct {
 	// on the tension side under sagging).
 	downPositive bool
 	legend       string
-	enabled      func(Layers) bool
+	enabled      func(storage.Overlays) bool
 }
 
 var diagramsList = []diagram{
-	{fem.QAxialForce, rgb(0x2e, 0x7d, 0x32), false, "tension + drawn above", func(l Layers) bool { return l.AxialForce }},
-	{fem.QShearForce, rgb(0x15, 0x65, 0xc0), false, "V = dM/dx, + drawn above", func(l Layers) bool { return l.ShearForce }},
-	{fem.QBendingMoment, rgb(0x7b, 0x1f, 0xa2), true, "sagging + drawn below (tension side)", func(l Layers) bool { return l.BendingMoment }},
-	{fem.QCombinedStress, rgb(0xa8, 0x4a, 0x00), false, "tension + drawn above", func(l Layers) bool { return l.Stress }},
+	{fem.QAxialForce, rgb(0x2e, 0x7d, 0x32), false, "tension + drawn above", func(o storage.Overlays) bool { return o.AxialForce }},
+	{fem.QShearForce, rgb(0x15, 0x65, 0xc0), false, "V = dM/dx, + drawn above", func(o storage.Overlays) bool { return o.ShearForce }},
+	{fem.QBendingMoment, rgb(0x7b, 0x1f, 0xa2), true, "sagging + drawn below (tension side)", func(o storage.Overlays) bool { return o.BendingMoment }},
+	{fem.QCombinedStress, rgb(0xa8, 0x4a, 0x00), false, "tension + drawn above", func(o storage.Overlays) bool { return o.Stress }},
+}
+
+// stripCount is the number of diagram strips o switches on.
+func stripCount(o storage.Overlays) int {
+	n := 0
+	for _, d := range diagramsList {
+		if d.enabled(o) {
+			n++
+		}
+	}
+	return n
 }
 
 // quantityWords names q in the trade's words with its symbol, where the
@@ -61,7 +73,7 @@ func (b *builder) diagrams(lay layoutBands) {
 	fe := b.feCurves
 	var ex []*curve
 	var gaps []extreme
-	if b.in.Exact != nil && b.in.Layers.ExactBand {
+	if b.in.Exact != nil && b.in.Overlays.ExactBand {
 		ex, gaps = exactCurves(b.in.Exact, b.in.Solution, b.in.Model, b.v, qs, b.in.Cache)
 	}
 	for i, st := range lay.strips {

@@ -19,11 +19,10 @@ type SheetNotes struct {
 }
 
 // SheetInput is what a calculation sheet shows. Input carries the model,
-// results and unit system; Panels picks the diagrams.
+// results, unit system and the overlays that pick the diagrams.
 type SheetInput struct {
-	Input  Input
-	Notes  SheetNotes
-	Panels ExportPanels
+	Input Input
+	Notes SheetNotes
 	// Checks are the failed or warned checks, one sentence each.
 	Checks []string
 }
@@ -100,10 +99,9 @@ func buildSheet(in SheetInput) *Scene {
 	// diagramScale so its labels sit close to the size of the table text.
 	sh.heading("Diagrams")
 	di := in.Input
-	di.Layers = in.Panels.layers(di.Layers)
 	di.Selected, di.Hovering, di.Highlight, di.Cache = Ref{}, false, [2]float64{}, nil
 	room := float32(a4Height-sheetEdge-3*textHeight(sheetText)) - sh.y - sh.reserve(in)
-	dh := min(float32(300+120*in.Panels.count())*diagramScale, room)
+	dh := min(float32(300+120*stripCount(in.Input.Overlays))*diagramScale, room)
 	dw := float32(right - sheetEdge)
 	v := NewView(dw/diagramScale, dh/diagramScale)
 	v.Fit(in.Input.Model)
