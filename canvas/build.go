@@ -113,7 +113,7 @@ func (b *builder) hoverLine(x, y0, y1 float32) {
 	var gaps [][2]float32
 	for _, t := range b.texts {
 		if x >= t.At.X-2 && x <= t.At.X+t.Width+2 {
-			gaps = append(gaps, [2]float32{t.At.Y - 1, t.At.Y + textHeight(t.Size) + 1})
+			gaps = append(gaps, [2]float32{t.At.Y - 1, t.At.Y + TextHeight(t.Size) + 1})
 		}
 	}
 	slices.SortFunc(gaps, func(a, b [2]float32) int { return cmp.Compare(a[0], b[0]) })
@@ -278,7 +278,7 @@ func (b *builder) circle(c Point, r float32, fill, stroke color.NRGBA, width flo
 // is kept inside the scene width. It returns the box.
 func (b *builder) text(s string, x, y float32, size float32, ax, ay float32, c color.NRGBA, bold bool) rect {
 	w := textWidth(s, size, bold)
-	h := textHeight(size)
+	h := TextHeight(size)
 	left := x - ax*w
 	left = max(2, min(b.v.Width-w-2, left))
 	top := y - ay*h
@@ -289,7 +289,7 @@ func (b *builder) text(s string, x, y float32, size float32, ax, ay float32, c c
 // label places s at the first candidate anchor whose box does not overlap an
 // earlier label; if none fits it is left out unless force is set.
 func (b *builder) label(s string, size float32, c color.NRGBA, bold, force bool, cands ...labelSpot) (rect, bool) {
-	w, h := textWidth(s, size, bold), textHeight(size)
+	w, h := textWidth(s, size, bold), TextHeight(size)
 	for i, cand := range cands {
 		if cand.x < -20 || cand.x > b.v.Width+20 {
 			continue // the thing labelled is off screen

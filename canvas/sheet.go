@@ -58,13 +58,13 @@ func (sh *sheet) row(cols []string, xs []float32, size float32, c color.NRGBA, b
 	for i, s := range cols {
 		sh.b.text(s, xs[i], sh.y, size, 0, 0, c, bold)
 	}
-	sh.y += textHeight(size) + 1
+	sh.y += TextHeight(size) + 1
 }
 
 func (sh *sheet) heading(s string) {
 	sh.y += 5
 	sh.b.text(s, sheetEdge, sh.y, 10, 0, 0, inkColour, true)
-	sh.y += textHeight(10) + 1
+	sh.y += TextHeight(10) + 1
 	sh.b.line(faintColour, 0.5, Point{sheetEdge, sh.y}, Point{a4Width - sheetEdge, sh.y})
 	sh.y += 2
 }
@@ -100,7 +100,7 @@ func buildSheet(in SheetInput) *Scene {
 	sh.heading("Diagrams")
 	di := in.Input
 	di.Selected, di.Hovering, di.Highlight, di.Cache = Ref{}, false, [2]float64{}, nil
-	room := float32(a4Height-sheetEdge-3*textHeight(sheetText)) - sh.y - sh.reserve(in)
+	room := float32(a4Height-sheetEdge-3*TextHeight(sheetText)) - sh.y - sh.reserve(in)
 	dh := min(float32(300+120*stripCount(in.Input.Overlays))*diagramScale, room)
 	dw := float32(right - sheetEdge)
 	v := NewView(dw/diagramScale, dh/diagramScale)
@@ -126,10 +126,10 @@ func buildSheet(in SheetInput) *Scene {
 		}
 	}
 	// The caution sits at the foot of the page whatever the content above.
-	foot := float32(a4Height - sheetEdge - 2*textHeight(sheetText))
+	foot := float32(a4Height - sheetEdge - 2*TextHeight(sheetText))
 	b.line(inkColour, 0.75, Point{sheetEdge, foot - 4}, Point{right, foot - 4})
 	for i, ln := range wrap(Caution, sheetText, true, right-sheetEdge) {
-		b.text(ln, sheetEdge, foot+float32(i)*textHeight(sheetText), sheetText, 0, 0, inkColour, true)
+		b.text(ln, sheetEdge, foot+float32(i)*TextHeight(sheetText), sheetText, 0, 0, inkColour, true)
 	}
 	return b.scene()
 }
@@ -154,7 +154,7 @@ func appendScene(dst, src *Scene, dx, dy, k float32) {
 
 // reserve is the height the results and checks below the diagrams take.
 func (sh *sheet) reserve(in SheetInput) float32 {
-	line := textHeight(sheetSmall) + 1
+	line := TextHeight(sheetSmall) + 1
 	h := float32(0)
 	if s := in.Input.Solution; s != nil {
 		h += 2*line*float32(4+len(s.Reactions)+len(s.Warnings)) + 12*line + 30

@@ -521,10 +521,10 @@ func intensityAt(pts []fem.LoadPoint, x float64) float64 {
 // problem shows the solver's complaint in the sketch band.
 func (b *builder) problem(lay layoutBands) {
 	lines := wrap(b.in.Problem, problemSize, true, b.v.Width-60)
-	h := textHeight(problemSize)
+	h := TextHeight(problemSize)
 	y := lay.top + 30
 	if b.in.Unreliable { // below the "UNRELIABLE RESULTS" line, not over it
-		y += textHeight(labelSize) + 4
+		y += TextHeight(labelSize) + 4
 	}
 	wmax := float32(0)
 	for _, ln := range lines {
