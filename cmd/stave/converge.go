@@ -6,6 +6,7 @@ import (
 	"math"
 	"text/tabwriter"
 
+	"stave/canvas/report"
 	"stave/fem/study"
 	"stave/storage"
 )
@@ -41,7 +42,7 @@ func convergeCommand(args []string, stdout io.Writer) error {
 		versus = &v
 	}
 	if *asJSON {
-		return writeJSON(stdout, convergenceJSON(path, table, versus))
+		return report.WriteJSON(stdout, convergenceJSON(path, table, versus))
 	}
 	printConvergence(stdout, path, table, versus)
 	return nil

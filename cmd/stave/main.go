@@ -19,7 +19,7 @@ import (
 	"io"
 	"os"
 
-	"stave/app"
+	"stave/canvas/report"
 	"stave/fem"
 )
 
@@ -49,8 +49,11 @@ const usage = `usage:
   stave version
 `
 
+// The calculation sheets and the solve text name the version, from the
+// window or the command line.
+func init() { report.Version = version }
+
 func main() {
-	app.Version = version // calculation sheets name the version, from the window or the command line
 	os.Exit(run(os.Args[1:], os.Stdout, os.Stderr))
 }
 
