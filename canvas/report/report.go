@@ -117,13 +117,15 @@ func UnitSystem(u storage.UnitSystem) units.System {
 	return units.SI
 }
 
+// CheckOptions are the check limits of view v, messages in units u.
+func CheckOptions(v storage.View, u units.System) check.Options {
+	return check.Options{SpanRatio: v.DeflectionLimit, SafetyFactor: v.SafetyFactor, Units: u}
+}
+
 // Request is the analysis of p's model (a copy), on nodes when not nil,
 // with the project's check limits and its units for the messages.
 func Request(p *storage.Project, nodes []float64) analysis.Request {
-	u := UnitSystem(p.View.Units)
-	v := p.View
-	return analysis.Request{Model: p.Model.Clone(), Nodes: nodes,
-		Checks: check.Options{SpanRatio: v.DeflectionLimit, SafetyFactor: v.SafetyFactor, Units: u}}
+	return analysis.Request{Model: p.Model.Clone(), Nodes: nodes, Checks: CheckOptions(p.View, UnitSystem(p.View.Units))}
 }
 
 // NewSource is p with analysis a and its findings, in p's units, with

@@ -20,14 +20,10 @@ import (
 	"os"
 
 	"stave/canvas/report"
-	"stave/fem"
 )
 
 // version is the Stave release; it also appears on calculation sheets.
 const version = "0.1.0"
-
-// caution goes with every printed result.
-const caution = fem.Caution
 
 // usageError marks misuse of the command line (exit status 2).
 type usageError struct{ msg string }
