@@ -20,6 +20,7 @@ import (
 	"os"
 
 	"stave/canvas/report"
+	_ "stave/cmd/stave/internal/plainlocale" // before the GUI toolkit reads the locale
 )
 
 // version is the Stave release; it also appears on calculation sheets.
