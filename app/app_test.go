@@ -1,6 +1,7 @@
 package app
 
 import (
+	"context"
 	"math"
 	"runtime"
 	"slices"
@@ -14,7 +15,9 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
+	"stave/canvas/report"
 	"stave/fem"
+	"stave/fem/analysis"
 	"stave/fem/units"
 	"stave/storage"
 )
@@ -63,24 +66,24 @@ func newTestWindow(t testing.TB, p *storage.Project) (*Window, *uiQueue) {
 	w := newWindow(a, p, "", options{post: q.post})
 	w.win.Resize(fyne.NewSize(1280, 800))
 	w.win.Show()
-	t.Cleanup(func() { w.solver.stop(); a.Quit() })
+	t.Cleanup(func() { w.solver.stop(); w.jobs.stop(quitWait); a.Quit() })
 	return w, q
 }
 
 // finished waits until both stages of the current model's analysis are shown.
 func finished(t testing.TB, w *Window, q *uiQueue) {
 	t.Helper()
-	q.waitFor(t, "the solver", func() bool { return w.result != nil && w.result.seq == w.pending && w.result.complete })
+	q.waitFor(t, "the solver", func() bool { return w.result != nil && w.result.seq == w.pending && w.result.Complete })
 }
 
 // solved waits until the current model has all its results.
 func solved(t testing.TB, w *Window, q *uiQueue) *fem.Solution {
 	t.Helper()
 	finished(t, w, q)
-	if w.result.solution == nil {
-		t.Fatalf("no solution: %v", w.result.err)
+	if w.result.Solution == nil {
+		t.Fatalf("no solution: %v", w.result.Err)
 	}
-	return w.result.solution
+	return w.result.Solution
 }
 
 // drag presses at from, moves to to in steps, and releases, as the window
@@ -272,7 +275,7 @@ func TestManyEditsLatestWins(t *testing.T) {
 	if w.result.seq != w.pending {
 		t.Fatalf("shown result %d, last edit %d", w.result.seq, w.pending)
 	}
-	if got := w.result.model.PointLoads[0].Transverse; got != -1000*edits {
+	if got := w.result.Model.PointLoads[0].Transverse; got != -1000*edits {
 		t.Fatalf("shown result is for a load of %g N, want %g N", got, -1000.0*edits)
 	}
 	// Bound: the undo stack keeps at most maxHistory models of a few kB
@@ -308,7 +311,6 @@ func reportMedian(b *testing.B, times []time.Duration) {
 func BenchmarkEditSolveScene(b *testing.B) {
 	p := benchmarkProject(b)
 	m := p.Model
-	layers := layersFrom(p.View.Overlays)
 	view := canvas.NewView(1000, 600)
 	view.Fit(&m)
 	times := make([]time.Duration, 0, b.N)
@@ -317,11 +319,11 @@ func BenchmarkEditSolveScene(b *testing.B) {
 		start := time.Now()
 		p.Model = m.Clone()
 		p.Model.PointLoads[0].X += 1e-3 * float64(i%100)
-		a := solveStage(request{seq: uint64(i), model: p.Model})
-		if a.solution == nil {
-			b.Fatal(a.err)
+		a, _ := analysis.Solve(context.Background(), analysis.Request{Model: p.Model})
+		if a.Solution == nil {
+			b.Fatal(a.Err)
 		}
-		canvas.Build(resultInput(p, &a, checkRows(&a), layers, units.SI), view)
+		canvas.Build(report.Input(report.NewSource(p, &a)), view)
 		times = append(times, time.Since(start))
 	}
 	reportMedian(b, times)
@@ -331,18 +333,18 @@ func BenchmarkEditSolveScene(b *testing.B) {
 // exact solution and the checks, which run once edits pause.
 func BenchmarkFinishStage(b *testing.B) {
 	p := benchmarkProject(b)
-	r := request{model: p.Model, opts: checkOptionsFor(p.View, units.SI)}
-	a := solveStage(r)
-	if a.solution == nil {
-		b.Fatal(a.err)
+	r := analysis.Request{Model: p.Model, Checks: report.CheckOptions(p.View, units.SI)}
+	a, _ := analysis.Solve(context.Background(), r)
+	if a.Solution == nil {
+		b.Fatal(a.Err)
 	}
 	times := make([]time.Duration, 0, b.N)
 	b.ResetTimer()
 	for i := 0; i < b.N; i++ {
 		start := time.Now()
-		full := finishStage(r, a)
-		if full.exact == nil || len(full.checks) == 0 {
-			b.Fatalf("second stage found no exact solution (%v) or no checks", full.exactErr)
+		full, _ := analysis.Finish(context.Background(), r, a)
+		if full.Exact == nil || len(full.Checks) == 0 {
+			b.Fatalf("second stage found no exact solution (%v) or no checks", full.ExactErr)
 		}
 		times = append(times, time.Since(start))
 	}

@@ -11,6 +11,3 @@
 // Data flows one way: edit -> model -> solver -> results -> scene -> screen.
 // Results are an aid for checking only; the status line says so at all times.
 package app
-
-// Version is printed on calculation sheets; cmd/stave may set it at start-up.
-var Version = "dev"

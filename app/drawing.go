@@ -211,7 +211,7 @@ func (r *drawingRenderer) MinSize() fyne.Size { return r.d.MinSize() }
 // Refresh rebuilds the scene from the window's current state.
 func (r *drawingRenderer) Refresh() {
 	r.d.scene = canvas.Build(r.d.w.sceneInput(), r.d.view)
-	r.objects = append([]fyne.CanvasObject{r.background}, canvas.Draw(r.d.scene)...)
+	r.objects = append([]fyne.CanvasObject{r.background}, drawScene(r.d.scene)...)
 	r.background.Refresh()
 }
 

@@ -1,190 +1,116 @@
 package app
 
 import (
-	"fmt"
+	"context"
+	"errors"
 	"io"
-	"sort"
 	"strings"
 
-	"fyne.io/fyne/v2/widget"
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/dialog"
 
-	"stave/canvas"
-	"stave/fem/check"
-	"stave/fem/units"
-	"stave/storage"
+	"stave/canvas/report"
+	"stave/fem/analysis"
 )
 
-// ExportOptions shape an export. Zero fields take the defaults.
-type ExportOptions struct {
-	// Width and Height of a drawing, in points (1/72 inch) as in the PDF and
-	// SVG files; default 1200 × 800.
-	Width, Height float32
-	// DPI is the pixel density of a PNG drawing: it has Width·DPI/72 ×
-	// Height·DPI/72 pixels, so the default 96 (a common screen density)
-	// gives 1600 × 1067 pixels for the default size. Calculation sheets keep
-	// their own A4 layout and density (canvas.WriteSheet).
-	DPI float64
-	// Panels chooses the diagrams under the member; nil takes the overlays
-	// switched on in the project.
-	Panels *canvas.ExportPanels
-}
-
-// Export defaults.
-const (
-	defaultExportWidth  = 1200
-	defaultExportHeight = 800
-	defaultExportDPI    = 96
-	// csvPointsPerElement is how many intervals of each element the results table samples.
-	csvPointsPerElement = 4
-)
-
-// exportKinds are the products of Export and of the window's File ▸ Export,
-// with the file extension each is written to.
-var exportKinds = []struct{ kind, ext, menu string }{
-	{"png", "png", "Export drawing as PNG…"},
-	{"svg", "svg", "Export drawing as SVG…"},
-	{"pdf", "pdf", "Export drawing as PDF…"},
-	{"sheet-pdf", "pdf", "Export calculation sheet as PDF…"},
-	{"sheet-png", "png", "Export calculation sheet as PNG…"},
-	{"csv", "csv", "Export results table (CSV)…"},
-}
-
-// exportExt returns the file extension of kind, or false for an unknown kind.
-func exportExt(kind string) (string, bool) {
-	for _, k := range exportKinds {
-		if k.kind == kind {
-			return k.ext, true
-		}
+// exportMenu lists the exports; the convergence chart once a study has run.
+func (w *Window) exportMenu() *fyne.Menu {
+	m := fyne.NewMenu("")
+	for _, p := range report.Products {
+		m.Items = append(m.Items, fyne.NewMenuItem("Export "+p.Title+"…", func() { w.export(p.Name) }))
 	}
-	return "", false
+	chart := fyne.NewMenuItem("Export convergence chart (PNG)…", func() {
+		w.chooseFile(true, "Export the convergence chart", "PNG file", "png", func(path string) { w.exportTo(path, w.writeConvergenceChart) })
+	})
+	chart.Disabled = w.convergence == nil
+	m.Items = append(m.Items, fyne.NewMenuItemSeparator(), chart)
+	return m
 }
 
-// Export solves p (finite elements, exact solution and checks, with the
-// project's check limits) and writes one product of it to w: a drawing
-// ("png", "svg", "pdf"), a calculation sheet ("sheet-pdf", "sheet-png") or
-// the results table ("csv"), in the project's units and with its overlays.
-// A model that cannot be solved still gives a drawing or sheet, with the
-// problem written on it, and Export returns nil; the results table then
-// cannot be written and Export returns why. The window's File ▸ Export
-// writes through the same code.
-func Export(w io.Writer, p *storage.Project, kind string, opts ExportOptions) error {
-	if _, ok := exportExt(kind); !ok {
-		return fmt.Errorf("cannot export %q: choose one of %s", kind, exportKindList())
-	}
-	u := unitSystem(p.View.Units)
-	a := analyse(request{model: p.Model.Clone(), opts: checkOptionsFor(p.View, u)})
-	return writeExport(w, exportSource{project: p, analysis: &a, rows: checkRows(&a), layers: layersFrom(p.View.Overlays), units: u}, kind, opts)
-}
-
-func exportKindList() string {
-	names := make([]string, len(exportKinds))
-	for i, k := range exportKinds {
-		names[i] = k.kind
-	}
-	return strings.Join(names, ", ")
-}
-
-// exportSource is what every export draws from: a project, a complete
-// analysis of its model, the check rows of that analysis, and how the
-// results are shown.
+// exportSource is what an export from the window writes from: a copy of
+// the window's project with its complete analysis, the one shown when it is
+// current and complete, otherwise one still to run, so an export never
+// waits for the background solver nor shows a stale result. Make it on the
+// UI goroutine; finish may run on any goroutine.
 type exportSource struct {
-	project  *storage.Project
-	analysis *analysis
-	pending  *request // the analysis still to run when analysis is nil (see finish)
-	rows     []checkRow
-	layers   canvas.Layers
-	units    units.System
+	src     report.Source
+	pending *analysis.Request // the analysis still to run when src has none
 }
 
-// resultInput is the drawing of project p with analysis a (nil before the
-// first result) and its check rows: the one place where results become a
-// canvas.Input, for the window and for exports.
-func resultInput(p *storage.Project, a *analysis, rows []checkRow, layers canvas.Layers, u units.System) canvas.Input {
-	in := canvas.Input{Model: &p.Model, Layers: layers, Magnification: p.View.Magnification, Units: u}
-	if a != nil && len(p.Model.Segments) > 0 {
-		in.Solution, in.Exact = a.solution, a.exact
-		in.Problem = a.problem()
-		in.Unreliable = unreliable(rows)
-		in.Marks = marks(rows)
+// exportSource copies the window's project and, when current and complete, its analysis.
+func (w *Window) exportSource() exportSource {
+	p := cloneProject(w.project)
+	out := exportSource{src: report.Source{Project: &p, Units: w.units, Dimensions: w.dimensions}}
+	if a := w.result; a != nil && a.seq == w.pending && a.Complete {
+		out.src.Analysis, out.src.Findings = &a.Analysis, w.checks
+	} else {
+		r := report.Request(&p, append([]float64(nil), w.adaptNodes...))
+		if w.adaptNodes == nil {
+			r.Nodes = nil
+		}
+		out.pending = &r
 	}
-	return in
+	return out
 }
 
-// checkOptionsFor are the check limits of view v, messages in units u.
-func checkOptionsFor(v storage.View, u units.System) check.Options {
-	return check.Options{SpanRatio: v.DeflectionLimit, SafetyFactor: v.SafetyFactor, Units: u}
+// finish runs the analysis of the source if the window had no complete one;
+// the error is ctx's when it was cancelled.
+func (e exportSource) finish(ctx context.Context) (report.Source, error) {
+	if e.src.Analysis != nil {
+		return e.src, nil
+	}
+	a, err := analysis.Run(ctx, *e.pending)
+	if err != nil {
+		return report.Source{}, err
+	}
+	e.src.Analysis, e.src.Findings = &a, a.Findings()
+	return e.src, nil
 }
 
-// writeExport writes one product of src to w (see Export).
-func writeExport(w io.Writer, src exportSource, kind string, opts ExportOptions) error {
-	opts, err := opts.withDefaults()
+// export writes one of report.Products to a file the user chooses, in the
+// background: solving and drawing a fine mesh takes time.
+func (w *Window) export(product string) {
+	ext, ok := report.ProductExt(product)
+	if !ok {
+		w.setStatus("export of %s is not available in this build", product)
+		return
+	}
+	w.chooseFile(true, "Export", strings.ToUpper(ext)+" file", ext, func(path string) { w.startExport(path, product) })
+}
+
+// startExport writes product to path as a background job and returns its number.
+func (w *Window) startExport(path, product string) int {
+	e := w.exportSource()
+	w.setStatus("exporting %s…", path)
+	return w.jobs.start("export of "+path, func(ctx context.Context) func() {
+		err := w.writeExport(ctx, path, e, product)
+		return func() { w.exported(path, err) }
+	})
+}
+
+// writeExport finishes e and writes product to path; a cancelled export
+// writes no file.
+func (w *Window) writeExport(ctx context.Context, path string, e exportSource, product string) error {
+	src, err := e.finish(ctx)
 	if err != nil {
 		return err
 	}
-	panels := panelsFrom(src.layers)
-	if opts.Panels != nil {
-		panels = *opts.Panels
-	}
-	in := resultInput(src.project, src.analysis, src.rows, src.layers, src.units)
-	if len(src.project.Model.Segments) == 0 {
-		return fmt.Errorf("the project has no member to export: draw one first")
-	}
-	switch kind {
-	case "png", "svg", "pdf":
-		return writeDrawing(w, kind, in, panels, opts)
-	case "sheet-pdf", "sheet-png":
-		n := src.project.Notes
-		return canvas.WriteSheet(w, strings.TrimPrefix(kind, "sheet-"), canvas.SheetInput{
-			Input:  in,
-			Notes:  canvas.SheetNotes{Project: n.Project, Mark: n.Member, Engineer: n.Engineer, Date: n.Date, Version: Version},
-			Panels: panels,
-			Checks: flaggedChecks(src.rows),
-		})
-	case "csv":
-		if in.Solution == nil {
-			return fmt.Errorf("there are no results to tabulate: %s", src.analysis.problem())
-		}
-		return canvas.WriteCSV(w, in.Solution, in.Exact, src.units, csvPointsPerElement)
-	}
-	return fmt.Errorf("cannot export %q: choose one of %s", kind, exportKindList())
+	return writeFile(path, func(f io.Writer) error { return report.Write(f, src, product, report.Options{}) })
 }
 
-func (o ExportOptions) withDefaults() (ExportOptions, error) {
-	if o.Width < 0 || o.Height < 0 || o.DPI < 0 {
-		return o, fmt.Errorf("export size %g × %g points at %g dpi: give positive numbers (or 0 for the defaults)", o.Width, o.Height, o.DPI)
-	}
-	if o.Width == 0 {
-		o.Width = defaultExportWidth
-	}
-	if o.Height == 0 {
-		o.Height = defaultExportHeight
-	}
-	if o.DPI == 0 {
-		o.DPI = defaultExportDPI
-	}
-	return o, nil
+// exportTo writes a file with write and reports the outcome.
+func (w *Window) exportTo(path string, write func(io.Writer) error) {
+	w.exported(path, writeFile(path, write))
 }
 
-// writeDrawing draws in with the chosen panels fitted to the page, without
-// the selection, the mouse position or a highlighted check.
-func writeDrawing(w io.Writer, format string, in canvas.Input, panels canvas.ExportPanels, opts ExportOptions) error {
-	return canvas.WriteImage(w, format, in, panels, opts.Width, opts.Height, opts.DPI/72)
-}
-
-// panelsFrom are the diagrams switched on in l.
-func panelsFrom(l canvas.Layers) canvas.ExportPanels {
-	return canvas.ExportPanels{Deformed: l.Deformed, AxialForce: l.AxialForce, ShearForce: l.ShearForce,
-		BendingMoment: l.BendingMoment, Stress: l.Stress}
-}
-
-// flaggedChecks are the failed and warned rows, one sentence each, the worst first.
-func flaggedChecks(rows []checkRow) []string {
-	var out []string
-	for _, r := range rows {
-		if r.importance == widget.DangerImportance || r.importance == widget.WarningImportance {
-			out = append(out, r.status+" — "+r.name+": "+r.message)
-		}
+// exported reports the outcome of an export.
+func (w *Window) exported(path string, err error) {
+	switch {
+	case errors.Is(err, context.Canceled):
+		w.setStatus("export of %s cancelled: no file written", path)
+	case err != nil:
+		dialog.ShowError(err, w.win)
+	default:
+		w.setStatus("exported %s", path)
 	}
-	sort.SliceStable(out, func(i, j int) bool { return strings.HasPrefix(out[i], "FAIL") && !strings.HasPrefix(out[j], "FAIL") })
-	return out
 }

@@ -17,6 +17,7 @@ import (
 	"fyne.io/fyne/v2/widget"
 	native "github.com/sqweek/dialog"
 
+	"stave/canvas/report"
 	"stave/storage"
 )
 
@@ -103,6 +104,7 @@ func (w *Window) mainMenu() *fyne.MainMenu {
 		fyne.NewMenuItem("Convergence study", w.runConvergence),
 		fyne.NewMenuItem("Adaptive refinement…", w.runAdaptive),
 		fyne.NewMenuItem("Back to the uniform mesh", w.uniformMesh),
+		fyne.NewMenuItem("Cancel the running study", w.cancelStudy),
 		fyne.NewMenuItemSeparator(),
 		fyne.NewMenuItem("Check limits…", w.showCheckLimits),
 	)
@@ -268,12 +270,17 @@ func (w *Window) closeRequested() {
 	})
 }
 
+// quitWait is how long a closing window waits for its background jobs to
+// notice they are cancelled; an export half drawn by then is left behind.
+const quitWait = 2 * time.Second
+
 // shutdown stops the background work of the window.
 func (w *Window) shutdown() {
 	if w.stopAutosave != nil {
 		w.stopAutosave()
 	}
 	w.solver.stop()
+	w.jobs.stop(quitWait)
 	if w.recoveryDir != "" {
 		_ = storage.ClearRecovery(w.recoveryDir)
 	}
@@ -310,8 +317,8 @@ func (w *Window) replaceProject(p *storage.Project, path string) {
 	w.hist = history{}
 	w.selected = canvasNone
 	w.highlight = [2]float64{}
-	w.units = unitSystem(w.project.View.Units)
-	w.layers = layersFrom(w.project.View.Overlays)
+	w.units = report.UnitSystem(w.project.View.Units)
+	w.dimensions = true
 	w.build()
 	w.setModel(w.project.Model)
 	w.draw.fit()
@@ -332,7 +339,6 @@ func (w *Window) saveAs(then func()) {
 }
 
 func (w *Window) writeProject(path string, then func()) {
-	w.project.View.Overlays = overlaysFrom(w.layers)
 	if err := storage.Save(path, &w.project); err != nil {
 		dialog.ShowError(fmt.Errorf("the member was not saved: %w", err), w.win)
 		return
@@ -432,7 +438,6 @@ func (w *Window) autosave() {
 	if !w.dirty() {
 		return
 	}
-	w.project.View.Overlays = overlaysFrom(w.layers)
 	if err := storage.WriteRecovery(w.recoveryDir, &w.project, w.path); err != nil {
 		w.setStatus("autosave failed: %v", err)
 	}
@@ -467,77 +472,6 @@ func (w *Window) offerRecovery() {
 			}
 			_ = storage.ClearRecovery(w.recoveryDir)
 		}, w.win)
-}
-
-// exportMenu lists the exports; the convergence chart once a study has run.
-func (w *Window) exportMenu() *fyne.Menu {
-	m := fyne.NewMenu("")
-	for _, k := range exportKinds {
-		m.Items = append(m.Items, fyne.NewMenuItem(k.menu, func() { w.export(k.kind) }))
-	}
-	chart := fyne.NewMenuItem("Export convergence chart (PNG)…", func() {
-		w.chooseFile(true, "Export the convergence chart", "PNG file", "png", func(path string) { w.exportTo(path, w.writeConvergenceChart) })
-	})
-	chart.Disabled = w.convergence == nil
-	m.Items = append(m.Items, fyne.NewMenuItemSeparator(), chart)
-	return m
-}
-
-// exportSource is a copy of the window's project with its complete
-// analysis: the one shown when it is current and complete, otherwise solved
-// now, so an export never waits for the background solver nor shows a stale
-// result. Call it on the UI goroutine; the returned source's finish may run
-// on any goroutine.
-func (w *Window) exportSource() exportSource {
-	p := cloneProject(w.project)
-	src := exportSource{project: &p, layers: w.layers, units: w.units}
-	if a := w.result; a != nil && a.seq == w.pending && a.complete {
-		src.analysis = a
-	} else {
-		src.pending = &request{model: w.project.Model.Clone(), nodes: append([]float64(nil), w.adaptNodes...), opts: w.checkOptions()}
-	}
-	return src
-}
-
-// finish solves the source's model if the window had no complete analysis of it.
-func (s exportSource) finish() exportSource {
-	if s.analysis == nil {
-		full := analyse(*s.pending)
-		s.analysis = &full
-	}
-	s.rows = checkRows(s.analysis)
-	return s
-}
-
-// export writes one of the exportKinds to a file the user chooses.
-func (w *Window) export(kind string) {
-	ext, ok := exportExt(kind)
-	if !ok {
-		w.setStatus("export of %s is not available in this build", kind)
-		return
-	}
-	w.chooseFile(true, "Export", strings.ToUpper(ext)+" file", ext, func(path string) {
-		src := w.exportSource()
-		w.setStatus("exporting %s…", path)
-		go func() { // solving and drawing a fine mesh takes time: not on the UI goroutine
-			err := writeFile(path, func(f io.Writer) error { return writeExport(f, src.finish(), kind, ExportOptions{}) })
-			w.post(func() { w.exported(path, err) })
-		}()
-	})
-}
-
-// exportTo writes a file with write and reports the outcome.
-func (w *Window) exportTo(path string, write func(io.Writer) error) {
-	w.exported(path, writeFile(path, write))
-}
-
-// exported reports the outcome of an export.
-func (w *Window) exported(path string, err error) {
-	if err != nil {
-		dialog.ShowError(err, w.win)
-		return
-	}
-	w.setStatus("exported %s", path)
 }
 
 // writeFile creates path and fills it with write.

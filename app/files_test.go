@@ -2,8 +2,7 @@ package app
 
 import (
 	"bytes"
-	"image/png"
-	"io"
+	"context"
 	"os"
 	"path/filepath"
 	"strings"
@@ -14,6 +13,7 @@ import (
 	"fyne.io/fyne/v2/test"
 
 	"stave/canvas"
+	"stave/canvas/report"
 	"stave/fem"
 	"stave/storage"
 )
@@ -85,75 +85,23 @@ func TestSaveWarnsWhenTheFileWouldNotOpen(t *testing.T) {
 	}
 }
 
-// TestExports writes every kind through Export and through the window's
-// path, and checks each starts the way its format requires.
+// TestExports writes every product through the window's path, and checks
+// each starts the way its format requires.
 func TestExports(t *testing.T) {
 	w, q := newTestWindow(t, demoProject(t))
 	solved(t, w, q)
 	dir := t.TempDir()
 	starts := map[string]string{"png": "\x89PNG", "svg": "<?xml", "pdf": "%PDF", "sheet-pdf": "%PDF", "sheet-png": "\x89PNG", "csv": "# Stave results."}
-	for _, k := range exportKinds {
-		var buf bytes.Buffer
-		if err := Export(&buf, demoProject(t), k.kind, ExportOptions{}); err != nil {
-			t.Errorf("Export %s: %v", k.kind, err)
-		} else if !bytes.HasPrefix(buf.Bytes(), []byte(starts[k.kind])) {
-			t.Errorf("Export %s starts with %q, want %q", k.kind, buf.Bytes()[:min(buf.Len(), 8)], starts[k.kind])
-		}
-		path := filepath.Join(dir, k.kind+"."+k.ext)
-		if err := writeFile(path, func(f io.Writer) error { return writeExport(f, w.exportSource().finish(), k.kind, ExportOptions{}) }); err != nil {
-			t.Errorf("window export %s: %v", k.kind, err)
+	for _, p := range report.Products {
+		path := filepath.Join(dir, p.Name+"."+p.Ext)
+		if err := w.writeExport(context.Background(), path, w.exportSource(), p.Name); err != nil {
+			t.Errorf("window export %s: %v", p.Name, err)
 			continue
 		}
 		data, err := os.ReadFile(path)
-		if err != nil || !bytes.HasPrefix(data, []byte(starts[k.kind])) {
-			t.Errorf("window export %s starts with %q, want %q", k.kind, data[:min(len(data), 8)], starts[k.kind])
+		if err != nil || !bytes.HasPrefix(data, []byte(starts[p.Name])) {
+			t.Errorf("window export %s starts with %q, want %q", p.Name, data[:min(len(data), 8)], starts[p.Name])
 		}
-	}
-	if err := Export(io.Discard, demoProject(t), "jpeg", ExportOptions{}); err == nil || !strings.Contains(err.Error(), "sheet-png") {
-		t.Errorf("an unknown kind gave %v, want an error listing the kinds", err)
-	}
-}
-
-// TestExportPNGSize: a PNG drawing has Width·DPI/72 × Height·DPI/72 pixels.
-func TestExportPNGSize(t *testing.T) {
-	for _, c := range []struct {
-		opts          ExportOptions
-		width, height int
-	}{
-		{ExportOptions{}, 1600, 1067}, // defaults: 1200 × 800 points at 96 dpi
-		{ExportOptions{Width: 600, Height: 300, DPI: 72}, 600, 300},
-		{ExportOptions{Width: 600, Height: 300, DPI: 144}, 1200, 600},
-		{ExportOptions{Width: 400, Height: 500, DPI: 300}, 1667, 2083},
-	} {
-		var buf bytes.Buffer
-		if err := Export(&buf, demoProject(t), "png", c.opts); err != nil {
-			t.Fatalf("%+v: %v", c.opts, err)
-		}
-		cfg, err := png.DecodeConfig(&buf)
-		if err != nil {
-			t.Fatalf("%+v: %v", c.opts, err)
-		}
-		if cfg.Width != c.width || cfg.Height != c.height {
-			t.Errorf("%+v: PNG is %d × %d pixels, want %d × %d", c.opts, cfg.Width, cfg.Height, c.width, c.height)
-		}
-	}
-}
-
-// TestExportUnsolvable: a member that can move still gives a drawing with
-// the problem on it, but no results table.
-func TestExportUnsolvable(t *testing.T) {
-	p := &storage.Project{View: storage.DefaultView(), Model: newMember(4)}
-	p.Model.Supports = []fem.Support{{X: 0, Kind: fem.Roller}}
-	var svg bytes.Buffer
-	if err := Export(&svg, p, "svg", ExportOptions{}); err != nil {
-		t.Fatalf("drawing of a mechanism: %v", err)
-	}
-	if !strings.Contains(svg.String(), "free motion") {
-		t.Error("the drawing of a mechanism does not say \"free motion\"")
-	}
-	err := Export(io.Discard, p, "csv", ExportOptions{})
-	if err == nil || !strings.Contains(err.Error(), "free motion") {
-		t.Errorf("results table of a mechanism gave %v, want an error naming the free motion", err)
 	}
 }
 
@@ -164,7 +112,7 @@ func TestChecksShowFreeMotionAndHighlight(t *testing.T) {
 	p.Model.Supports = []fem.Support{{X: 0, Kind: fem.Roller}}
 	w, q := newTestWindow(t, p)
 	finished(t, w, q)
-	if len(w.checks) == 0 || w.checks[0].status != "FAIL" || !strings.HasPrefix(w.checks[0].name, "free motion") {
+	if len(w.checks) == 0 || w.checks[0].Status != "FAIL" || !strings.HasPrefix(w.checks[0].Name, "free motion") {
 		t.Fatalf("checks of a member on one roller: %+v", w.checks)
 	}
 	if !w.sceneInput().Unreliable {
@@ -174,10 +122,10 @@ func TestChecksShowFreeMotionAndHighlight(t *testing.T) {
 	w.apply("add a pinned support", func(m *fem.Model) error { addSupport(m, fem.Pinned, 4); return nil })
 	solved(t, w, q)
 	for i, r := range w.checks {
-		if r.span != [2]float64{} {
+		if r.Span != [2]float64{} {
 			w.ui.checkList.Select(i)
-			if w.sceneInput().Highlight != r.span {
-				t.Errorf("selecting check %q highlights %v, want %v", r.name, w.sceneInput().Highlight, r.span)
+			if w.sceneInput().Highlight != r.Span {
+				t.Errorf("selecting check %q highlights %v, want %v", r.Name, w.sceneInput().Highlight, r.Span)
 			}
 			return
 		}
@@ -240,7 +188,7 @@ func TestDesignFailureIsNotUnreliable(t *testing.T) {
 	solved(t, w, q)
 	failed := -1
 	for i, r := range w.checks {
-		if r.status == "FAIL" && strings.HasPrefix(r.name, "Stress") {
+		if r.Status == "FAIL" && strings.HasPrefix(r.Name, "Stress") {
 			failed = i
 		}
 	}
@@ -261,7 +209,7 @@ func TestDesignFailureIsNotUnreliable(t *testing.T) {
 		t.Fatalf("failed stress check has no severe marker: %+v", in.Marks)
 	}
 	w.selectItem(canvas.Ref{Kind: canvas.CheckMark, Index: failed})
-	if w.sceneInput().Highlight != w.checks[failed].span {
-		t.Errorf("clicking the marker highlights %v, want the check's place %v", w.sceneInput().Highlight, w.checks[failed].span)
+	if w.sceneInput().Highlight != w.checks[failed].Span {
+		t.Errorf("clicking the marker highlights %v, want the check's place %v", w.sceneInput().Highlight, w.checks[failed].Span)
 	}
 }

@@ -16,6 +16,7 @@ import (
 
 	"stave/canvas"
 	"stave/fem"
+	"stave/fem/analysis"
 	"stave/fem/units"
 	"stave/storage"
 )
@@ -108,8 +109,8 @@ func (w *Window) build() {
 		func(i widget.ListItemID, o fyne.CanvasObject) {
 			r := w.checks[i]
 			t := o.(*fyne.Container).Objects[0].(*fynecanvas.Text)
-			t.Text = r.status + "  " + r.name
-			t.Color = importanceColour(r.importance)
+			t.Text = r.Status + "  " + r.Name
+			t.Color = importanceColour(importance(r.Severity))
 			t.Refresh()
 		})
 	c.checkDetail = widget.NewLabel("")
@@ -119,7 +120,7 @@ func (w *Window) build() {
 			w.selectCheck(w.checks[i])
 		}
 	}
-	c.checkList.OnUnselected = func(widget.ListItemID) { w.selectCheck(checkRow{}) }
+	c.checkList.OnUnselected = func(widget.ListItemID) { w.selectCheck(analysis.Finding{}) }
 
 	readoutAndChecks := container.NewVSplit(
 		container.NewScroll(c.readout.grid), // its first line says what it shows: no heading, to save height
@@ -216,7 +217,7 @@ func (c *controls) layerBar() fyne.CanvasObject {
 		c.layerChecks[on] = ch
 		return ch
 	}
-	l := &w.layers
+	o := &w.project.View.Overlays
 	c.magnify = widget.NewSlider(0, 4) // log10 of the magnification
 	c.magnify.Step = 0.05
 	c.magnify.OnChanged = func(v float64) {
@@ -233,10 +234,10 @@ func (c *controls) layerBar() fyne.CanvasObject {
 	c.showMagnification()
 	return container.NewVBox(
 		container.NewGridWithColumns(4,
-			toggle("Deflected shape", &l.Deformed), toggle("Axial force N", &l.AxialForce),
-			toggle("Shear force V", &l.ShearForce), toggle("Bending moment M", &l.BendingMoment),
-			toggle("Stress σ", &l.Stress), toggle("Nodes", &l.Nodes),
-			toggle("Exact vs FE gap", &l.ExactBand), toggle("Dimensions", &l.Dimensions)),
+			toggle("Deflected shape", &o.DeformedShape), toggle("Axial force N", &o.AxialForce),
+			toggle("Shear force V", &o.ShearForce), toggle("Bending moment M", &o.BendingMoment),
+			toggle("Stress σ", &o.Stress), toggle("Nodes", &o.Nodes),
+			toggle("Exact vs FE gap", &o.ExactBand), toggle("Dimensions", &w.dimensions)),
 		container.NewBorder(nil, nil, widget.NewLabel("Deflection scale"), container.NewHBox(c.magnifyText, auto, c.unitSelect), c.magnify))
 }
 
@@ -264,7 +265,7 @@ func (c *controls) showGrid() {
 	}
 }
 
-// showLayers brings the overlay switches in line with the window's layers.
+// showLayers brings the overlay switches in line with the project's overlays.
 func (c *controls) showLayers() {
 	for on, ch := range c.layerChecks {
 		ch.SetChecked(*on)
@@ -290,8 +291,8 @@ func (c *controls) showMesh() {
 func (c *controls) showElementsUsed() {
 	w := c.w
 	used := ""
-	if a := w.result; a != nil && a.seq == w.pending && a.solution != nil {
-		used = fmt.Sprintf("→ %d used", len(a.solution.Mesh.Elements))
+	if a := w.result; a != nil && a.seq == w.pending && a.Solution != nil {
+		used = fmt.Sprintf("→ %d used", len(a.Solution.Mesh.Elements))
 	}
 	if w.adaptNodes != nil {
 		used = fmt.Sprintf("→ adaptive mesh, %d used", len(w.adaptNodes)-1)
@@ -399,16 +400,20 @@ func (w *Window) hoverChanged() {
 }
 
 // selectCheck shows the full message of r and marks its place on the drawing.
-func (w *Window) selectCheck(r checkRow) {
-	w.highlight = r.span
-	if r.name == "" {
-		text := resultSummary(w.result, w.units) + "\nClick a check to read it and see its place on the drawing."
-		if h := handbookText(w.result, w.units); h != "" {
-			text += "\n\n" + h
+func (w *Window) selectCheck(f analysis.Finding) {
+	w.highlight = f.Span
+	if f.Name == "" {
+		text, handbook := "solving…", ""
+		if a := w.result; a != nil {
+			text, handbook = a.MeshText(w.units), a.HandbookText(w.units)
+		}
+		text += "\nClick a check to read it and see its place on the drawing."
+		if handbook != "" {
+			text += "\n\n" + handbook
 		}
 		w.ui.checkDetail.SetText(text)
 	} else {
-		w.ui.checkDetail.SetText(r.status + " — " + r.name + ": " + r.message)
+		w.ui.checkDetail.SetText(f.Sentence())
 	}
 	w.draw.Refresh()
 }
@@ -417,7 +422,7 @@ func (w *Window) selectCheck(r checkRow) {
 func (c *controls) showResults() {
 	w := c.w
 	c.checkList.UnselectAll()
-	w.selectCheck(checkRow{})
+	w.selectCheck(analysis.Finding{})
 	c.checkList.Refresh()
 	c.showMagnification()
 	c.showElementsUsed()
@@ -428,24 +433,6 @@ func (c *controls) showResults() {
 // in a text grid: compact rows and aligned columns.
 type readout struct {
 	grid *widget.TextGrid
-}
-
-type quantity struct {
-	name string
-	q    units.Kind
-	get  func(f fem.Fields) float64
-}
-
-var readoutQuantities = []quantity{
-	{"u axial", units.Deflection, func(f fem.Fields) float64 { return f.AxialDisplacement }},
-	{"w deflection", units.Deflection, func(f fem.Fields) float64 { return f.Deflection }},
-	{"θ rotation", units.Rotation, func(f fem.Fields) float64 { return f.Rotation }},
-	{"N axial force", units.Force, func(f fem.Fields) float64 { return f.AxialForce }},
-	{"V shear force", units.Force, func(f fem.Fields) float64 { return f.ShearForce }},
-	{"M bending", units.Moment, func(f fem.Fields) float64 { return f.BendingMoment }},
-	{"σ axial N/A", units.Stress, func(f fem.Fields) float64 { return f.AxialStress }},
-	{"σ bending Mc/I", units.Stress, func(f fem.Fields) float64 { return f.BendingStress }},
-	{"σ combined", units.Stress, func(f fem.Fields) float64 { return f.CombinedStress }},
 }
 
 func newReadout() *readout {
@@ -469,19 +456,24 @@ func (r *readout) show(w *Window) {
 	d := w.draw
 	a := w.result
 	m := &w.project.Model
-	if !d.hovering || a == nil || a.solution == nil || d.hoverX < 0 || d.hoverX > m.Length() {
+	if !d.hovering || a == nil || a.Solution == nil || d.hoverX < 0 || d.hoverX > m.Length() {
 		r.grid.SetText("At the mouse\n\nMove the mouse over the member to read\nevery result at that point, finite\nelement (FE) beside exact.")
 		return
 	}
 	x := d.hoverX
-	fe := a.solution.At(x, fem.Right)
+	fe := a.Solution.At(x, fem.Right)
 	lines := []string{readoutLine("at "+w.units.Format(units.Position, x), "FE", "exact", "")}
-	for _, q := range readoutQuantities {
+	var ex fem.Fields
+	if a.Exact != nil {
+		ex = a.Exact.At(x, fem.Right)
+	}
+	for _, q := range fem.Quantities() {
+		info := q.Info()
 		exact := "—"
-		if a.exact != nil {
-			exact = shortNumber(w.units.ToDisplay(q.q, q.get(a.exact.At(x, fem.Right))))
+		if a.Exact != nil {
+			exact = shortNumber(w.units.ToDisplay(info.Unit, q.Of(&ex)))
 		}
-		lines = append(lines, readoutLine(q.name, shortNumber(w.units.ToDisplay(q.q, q.get(fe))), exact, w.units.Unit(q.q).Symbol))
+		lines = append(lines, readoutLine(info.Label, shortNumber(w.units.ToDisplay(info.Unit, q.Of(&fe))), exact, w.units.Unit(info.Unit).Symbol))
 	}
 	r.grid.SetText(strings.Join(lines, "\n"))
 }

@@ -1,29 +1,46 @@
 package app
 
 import (
+	"context"
 	"sync"
 	"sync/atomic"
 
 	"stave/fem"
+	"stave/fem/analysis"
 	"stave/fem/check"
 )
 
-// request is one model to analyse, numbered in the order of the edits.
+// request is one model to analyse, numbered in the order of the edits. Its
+// model is a deep copy owned by the solver.
 type request struct {
-	seq   uint64
-	model fem.Model // a deep copy owned by the solver
-	nodes []float64 // adaptive mesh to solve on; nil for the model's uniform mesh
-	opts  check.Options
+	seq uint64
+	analysis.Request
 }
 
-// stages are the two steps of an analysis (see analysis).
+// result is the analysis of request seq, as far as it has got.
+type result struct {
+	seq uint64
+	analysis.Analysis
+}
+
+// stages are the two steps of an analysis (see package fem/analysis); each
+// returns ctx's error when the solver stops first.
 type stages struct {
-	solve  func(request) analysis
-	finish func(request, analysis) analysis
+	solve  func(context.Context, request) (result, error)
+	finish func(context.Context, request, result) (result, error)
 }
 
 // analysisStages are the stages the window uses.
-var analysisStages = stages{solve: solveStage, finish: finishStage}
+var analysisStages = stages{
+	solve: func(ctx context.Context, r request) (result, error) {
+		a, err := analysis.Solve(ctx, r.Request)
+		return result{r.seq, a}, err
+	},
+	finish: func(ctx context.Context, r request, first result) (result, error) {
+		a, err := analysis.Finish(ctx, r.Request, first.Analysis)
+		return result{r.seq, a}, err
+	},
+}
 
 // solver analyses models on its own goroutine. Requests go through a
 // one-place mailbox in which a newer request replaces one not yet taken, so
@@ -36,7 +53,8 @@ var analysisStages = stages{solve: solveStage, finish: finishStage}
 // dropped before it reaches the UI.
 type solver struct {
 	mailbox chan request
-	quit    chan struct{}
+	ctx     context.Context // done when the solver stops
+	stopNow context.CancelFunc
 	done    sync.WaitGroup
 	latest  atomic.Uint64 // number of the newest request submitted
 	next    uint64        // owned by the submitting (UI) goroutine
@@ -45,18 +63,18 @@ type solver struct {
 	// post runs a function on the UI goroutine: fyne.Do in the application,
 	// a queue the test drains in tests.
 	post    func(func())
-	deliver func(analysis) // runs on the UI goroutine
+	deliver func(result) // runs on the UI goroutine
 }
 
 // newSolver starts the worker goroutine.
-func newSolver(st stages, post func(func()), deliver func(analysis)) *solver {
+func newSolver(st stages, post func(func()), deliver func(result)) *solver {
 	s := &solver{
 		mailbox: make(chan request, 1),
-		quit:    make(chan struct{}),
 		stages:  st,
 		post:    post,
 		deliver: deliver,
 	}
+	s.ctx, s.stopNow = context.WithCancel(context.Background())
 	s.done.Add(1)
 	go s.run()
 	return s
@@ -67,9 +85,9 @@ func newSolver(st stages, post func(func()), deliver func(analysis)) *solver {
 // only (the UI's).
 func (s *solver) submit(m fem.Model, nodes []float64, opts check.Options) uint64 {
 	s.next++
-	r := request{seq: s.next, model: m.Clone(), nodes: append([]float64(nil), nodes...), opts: opts}
+	r := request{s.next, analysis.Request{Model: m.Clone(), Nodes: append([]float64(nil), nodes...), Checks: opts}}
 	if nodes == nil {
-		r.nodes = nil
+		r.Nodes = nil
 	}
 	s.latest.Store(r.seq)
 	for {
@@ -85,9 +103,10 @@ func (s *solver) submit(m fem.Model, nodes []float64, opts check.Options) uint64
 	}
 }
 
-// stop ends the worker and waits for it; results still in flight are dropped.
+// stop ends the worker, cancelling the stage it runs between its steps, and
+// waits for it; results still in flight are dropped.
 func (s *solver) stop() {
-	close(s.quit)
+	s.stopNow()
 	s.done.Wait()
 }
 
@@ -95,7 +114,7 @@ func (s *solver) stop() {
 func (s *solver) stale(seq uint64) bool { return seq < s.latest.Load() }
 
 // send posts a to the UI goroutine, which delivers it if it is still the newest.
-func (s *solver) send(a analysis) {
+func (s *solver) send(a result) {
 	s.post(func() {
 		if a.seq == s.latest.Load() {
 			s.deliver(a)
@@ -107,10 +126,13 @@ func (s *solver) run() {
 	defer s.done.Done()
 	for {
 		select {
-		case <-s.quit:
+		case <-s.ctx.Done():
 			return
 		case r := <-s.mailbox:
-			a := s.stages.solve(r)
+			a, err := s.stages.solve(s.ctx, r)
+			if err != nil {
+				return // stopped
+			}
 			if s.stale(a.seq) {
 				continue // a newer edit is already waiting
 			}
@@ -118,7 +140,10 @@ func (s *solver) run() {
 			if s.stale(a.seq) {
 				continue
 			}
-			full := s.stages.finish(r, a)
+			full, err := s.stages.finish(s.ctx, r, a)
+			if err != nil {
+				return
+			}
 			if s.stale(full.seq) {
 				continue
 			}

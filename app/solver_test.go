@@ -1,23 +1,25 @@
 package app
 
 import (
+	"context"
 	"sync"
 	"testing"
 
 	"stave/fem"
+	"stave/fem/analysis"
 	"stave/fem/check"
 )
 
 // quickStages are analysis stages that solve nothing, for solver tests.
 func quickStages(solve func(r request)) stages {
 	return stages{
-		solve: func(r request) analysis {
+		solve: func(_ context.Context, r request) (result, error) {
 			if solve != nil {
 				solve(r)
 			}
-			return analysis{seq: r.seq, model: r.model}
+			return result{seq: r.seq, Analysis: analysis.Analysis{Model: r.Model}}, nil
 		},
-		finish: func(r request, a analysis) analysis { a.complete = true; return a },
+		finish: func(_ context.Context, r request, a result) (result, error) { a.Complete = true; return a, nil },
 	}
 }
 
@@ -29,14 +31,14 @@ func TestSolverKeepsOnlyTheNewest(t *testing.T) {
 	started := make(chan uint64, 10)
 	var analysed []uint64 // written by the worker, read after stop
 	q := &uiQueue{}
-	var delivered []analysis
+	var delivered []result
 	s := newSolver(quickStages(func(r request) {
 		started <- r.seq
 		if r.seq == 1 {
 			<-release
 		}
 		analysed = append(analysed, r.seq)
-	}), q.post, func(a analysis) { delivered = append(delivered, a) })
+	}), q.post, func(a result) { delivered = append(delivered, a) })
 
 	m := newMember(1)
 	s.submit(m, nil, check.Options{})
@@ -48,10 +50,10 @@ func TestSolverKeepsOnlyTheNewest(t *testing.T) {
 		s.submit(m, nil, check.Options{})
 	}
 	close(release)
-	q.waitFor(t, "the newest complete result", func() bool { return len(delivered) > 0 && delivered[len(delivered)-1].complete })
+	q.waitFor(t, "the newest complete result", func() bool { return len(delivered) > 0 && delivered[len(delivered)-1].Complete })
 	s.stop()
 	q.drain()
-	if len(delivered) != 2 || delivered[0].seq != 1000 || delivered[1].seq != 1000 || delivered[0].complete || delivered[1].model.Mesh.Elements != 1000 {
+	if len(delivered) != 2 || delivered[0].seq != 1000 || delivered[1].seq != 1000 || delivered[0].Complete || delivered[1].Model.Mesh.Elements != 1000 {
 		t.Errorf("delivered %+v; want request 1000 (1000 elements) twice, first without its second stage", delivered)
 	}
 	if len(analysed) != 2 || analysed[1] != 1000 {
@@ -73,15 +75,18 @@ func TestSecondStageSkippedWhenNewerWaits(t *testing.T) {
 	st := quickStages(nil)
 	var finished []uint64 // written by the worker, read after stop
 	finish := st.finish
-	st.finish = func(r request, a analysis) analysis { finished = append(finished, r.seq); return finish(r, a) }
-	var delivered []analysis
-	s := newSolver(st, post, func(a analysis) { delivered = append(delivered, a) })
+	st.finish = func(ctx context.Context, r request, a result) (result, error) {
+		finished = append(finished, r.seq)
+		return finish(ctx, r, a)
+	}
+	var delivered []result
+	s := newSolver(st, post, func(a result) { delivered = append(delivered, a) })
 	m := newMember(1)
 	s.submit(m, nil, check.Options{})
 	<-posted // the first result is posted; the worker waits
 	s.submit(m, nil, check.Options{})
 	close(proceed)
-	q.waitFor(t, "the complete second result", func() bool { return len(delivered) > 0 && delivered[len(delivered)-1].complete })
+	q.waitFor(t, "the complete second result", func() bool { return len(delivered) > 0 && delivered[len(delivered)-1].Complete })
 	s.stop()
 	q.drain()
 	if len(finished) != 1 || finished[0] != 2 {
@@ -98,7 +103,7 @@ func TestSecondStageSkippedWhenNewerWaits(t *testing.T) {
 // submitting must not change what the solver sees.
 func TestSubmitCopiesTheModel(t *testing.T) {
 	got := make(chan request, 1)
-	s := newSolver(quickStages(func(r request) { got <- r }), func(func()) {}, func(analysis) {})
+	s := newSolver(quickStages(func(r request) { got <- r }), func(func()) {}, func(result) {})
 	defer s.stop()
 	m := newMember(2)
 	m.Supports = []fem.Support{{X: 0, Kind: fem.Fixed}}
@@ -107,7 +112,7 @@ func TestSubmitCopiesTheModel(t *testing.T) {
 	m.Supports[0].X = 1
 	m.Segments[0].Section.Area = 7
 	nodes[1] = 1.5
-	if r := <-got; r.model.Supports[0].X != 0 || r.model.Segments[0].Section.Area == 7 || r.nodes[1] != 1 {
+	if r := <-got; r.Model.Supports[0].X != 0 || r.Model.Segments[0].Section.Area == 7 || r.Nodes[1] != 1 {
 		t.Errorf("the solver saw a change made after submitting: %+v", r)
 	}
 }

@@ -2,9 +2,11 @@ package app
 
 import (
 	"bytes"
+	"context"
+	"errors"
 	"fmt"
 	"io"
-	"math"
+	"path/filepath"
 	"reflect"
 	"strings"
 
@@ -14,7 +16,7 @@ import (
 	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/widget"
 
-	"stave/canvas"
+	"stave/canvas/report"
 	"stave/fem"
 	"stave/fem/study"
 )
@@ -33,34 +35,52 @@ type convergenceStudy struct {
 	table study.Table
 }
 
-// background runs work off the UI goroutine and then done on it, saying in
-// the status line what runs meanwhile; one study at a time.
-func (w *Window) background(what string, work func(m fem.Model) func()) {
-	if w.studying {
-		w.setStatus("a study is still running: wait for its result")
+// background runs a study as a background job and then done on the UI
+// goroutine, saying in the status line what runs meanwhile; one study at a
+// time. work returns done and the study's error: a study that stopped
+// because it was cancelled says so and shows nothing.
+func (w *Window) background(what string, work func(ctx context.Context, m fem.Model) (done func(), err error)) {
+	if w.study != 0 {
+		w.setStatus("a study is still running: wait for its result, or cancel it (Study ▸ Cancel the running study)")
 		return
 	}
 	if len(w.project.Model.Segments) == 0 {
 		w.setStatus("%s needs a member: draw one first", what)
 		return
 	}
-	w.studying = true
-	w.setStatus("%s running…", what)
 	m := w.project.Model.Clone()
-	go func() {
-		done := work(m)
-		w.post(func() {
-			w.studying = false
+	var id int
+	id = w.jobs.start(what, func(ctx context.Context) func() {
+		done, err := work(ctx, m)
+		return func() {
+			if w.study == id {
+				w.study = 0
+			}
+			if errors.Is(err, context.Canceled) {
+				w.setStatus("%s cancelled", what)
+				return
+			}
 			done()
-		})
-	}()
+		}
+	})
+	w.study = id
+	w.setStatus("%s running… (Study ▸ Cancel the running study stops it)", what)
+}
+
+// cancelStudy stops the study running in the background.
+func (w *Window) cancelStudy() {
+	if w.study == 0 || !w.jobs.cancel(w.study) {
+		w.setStatus("no study is running")
+		return
+	}
+	w.setStatus("cancelling the study…")
 }
 
 // runConvergence solves the model on meshes refined step by step and shows
 // the errors against the exact solution with the observed rates.
 func (w *Window) runConvergence() {
-	w.background("convergence study", func(m fem.Model) func() {
-		t, err := study.Convergence(&m, convergencePerStretch)
+	w.background("convergence study", func(ctx context.Context, m fem.Model) (func(), error) {
+		t, err := study.Convergence(ctx, &m, convergencePerStretch)
 		return func() {
 			if err != nil {
 				dialog.ShowError(err, w.win)
@@ -71,18 +91,8 @@ func (w *Window) runConvergence() {
 			w.win.SetMainMenu(w.mainMenu()) // enables the chart export
 			w.setStatus("convergence study done: %d meshes", len(t.Rows))
 			w.showConvergence()
-		}
+		}, err
 	})
-}
-
-// convergenceRows are the study's rows as the chart plots them.
-func convergenceRows(t study.Table) []canvas.ConvergenceRow {
-	rows := make([]canvas.ConvergenceRow, len(t.Rows))
-	for i, r := range t.Rows {
-		rows[i] = canvas.ConvergenceRow{Elements: r.Elements,
-			Errors: fem.ErrorNorms{MaxStressRelative: r.MaxStress, RelativeL2: r.L2, RelativeEnergy: r.Energy}}
-	}
-	return rows
 }
 
 // writeConvergenceChart writes the chart of the last study as PNG.
@@ -90,51 +100,18 @@ func (w *Window) writeConvergenceChart(f io.Writer) error {
 	if w.convergence == nil {
 		return fmt.Errorf("no convergence study yet: run Study ▸ Convergence study first")
 	}
-	return canvas.WriteConvergenceChart(f, "png", convergenceRows(w.convergence.table))
+	return report.WriteConvergenceChart(f, "png", w.convergence.table)
 }
 
-// percent writes a relative error, "exact" at round-off.
-func percent(v float64) string {
-	if v < 1e-10 {
-		return "exact"
-	}
-	return fmt.Sprintf("%.3g %%", 100*v)
-}
-
-// rateText writes an observed rate, a dash where there is none.
-func rateText(v float64) string {
-	if math.IsNaN(v) {
-		return "—"
-	}
-	return fmt.Sprintf("%.2f", v)
-}
-
-// convergenceTable is the study as a fixed-width table.
-func convergenceTable(t study.Table) string {
+// convergenceText is the study as the command line prints it.
+func (w *Window) convergenceText() string {
 	var b strings.Builder
-	row := func(cols ...string) {
-		fmt.Fprintf(&b, "%8s %11s %11s %11s %7s %7s %7s\n", cols[0], cols[1], cols[2], cols[3], cols[4], cols[5], cols[6])
+	name := "the member"
+	if w.path != "" {
+		name = filepath.Base(w.path)
 	}
-	row("elements", "max stress", "L2", "energy", "rate σ", "rate L2", "rate E")
-	for _, r := range t.Rows {
-		row(fmt.Sprint(r.Elements), percent(r.MaxStress), percent(r.L2), percent(r.Energy),
-			rateText(r.StressRate), rateText(r.L2Rate), rateText(r.EnergyRate))
-	}
+	report.WriteConvergenceText(&b, name, w.convergence.table, nil)
 	return strings.TrimSuffix(b.String(), "\n")
-}
-
-// convergenceNotes gives the fitted rates beside those theory predicts.
-func convergenceNotes(c *convergenceStudy) string {
-	t := c.table
-	bar := "linear bars 1 and 2"
-	if c.model.Mesh.BarOrder == fem.QuadraticBar {
-		bar = "quadratic bars 2 and 3"
-	}
-	return fmt.Sprintf("Fitted rates (error ∝ h^rate, h the element length): stress %s, L2 %s, energy %s.\n\n"+
-		"Theory for smooth solutions (Strang & Fix; Hughes; from memory), energy and stress, then L2: "+
-		"cubic beams 2 and 4, %s. A member loaded both ways converges at the slower rate.\n\n"+
-		"\"exact\" means at round-off: one-dimensional elements are often exact at the nodes, and a rate needs two errors above round-off.",
-		rateText(t.StressRate), rateText(t.L2Rate), rateText(t.EnergyRate), bar)
 }
 
 // showConvergence shows the last convergence study: table, rates and chart.
@@ -146,14 +123,14 @@ func (w *Window) showConvergence() {
 		return l
 	}
 	table := widget.NewTextGrid()
-	table.SetText(convergenceTable(c.table))
-	left := container.NewVBox(table, wrapped(convergenceNotes(c)))
+	table.SetText(w.convergenceText())
+	left := container.NewVBox(table)
 	if !reflect.DeepEqual(c.model, w.project.Model) {
 		left.Add(wrapped("The model has changed since this study: run it again to see the current one."))
 	}
 	var right fyne.CanvasObject
 	var chart bytes.Buffer
-	if err := canvas.WriteConvergenceChart(&chart, "png", convergenceRows(c.table)); err == nil {
+	if err := report.WriteConvergenceChart(&chart, "png", c.table); err == nil {
 		img := fynecanvas.NewImageFromResource(fyne.NewStaticResource("convergence.png", chart.Bytes()))
 		img.FillMode = fynecanvas.ImageFillContain
 		img.SetMinSize(fyne.NewSize(500, 344))
@@ -194,9 +171,9 @@ func (w *Window) runAdaptive() {
 
 // startAdaptive refines towards target in the background.
 func (w *Window) startAdaptive(target float64) {
-	w.background("adaptive refinement", func(m fem.Model) func() {
-		v, err := study.AgainstUniform(&m, target, adaptMaxElements, adaptMaxUniform)
-		return func() { w.adaptiveDone(m, target, v, err) }
+	w.background("adaptive refinement", func(ctx context.Context, m fem.Model) (func(), error) {
+		v, err := study.AgainstUniform(ctx, &m, target, adaptMaxElements, adaptMaxUniform)
+		return func() { w.adaptiveDone(m, target, v, err) }, err
 	})
 }
 
@@ -226,7 +203,7 @@ func (w *Window) adaptiveDone(m fem.Model, target float64, v study.Versus, err e
 	current := reflect.DeepEqual(m, w.project.Model)
 	if current {
 		w.adaptNodes = v.Adaptive.Nodes
-		w.layers.Nodes = true
+		w.project.View.Overlays.Nodes = true
 		w.ui.showLayers()
 		w.resubmit()
 		w.setStatus("solving on the adaptive mesh of %d elements; any edit of the model goes back to uniform meshing", len(v.Adaptive.Nodes)-1)
@@ -241,27 +218,14 @@ func (w *Window) adaptiveDone(m fem.Model, target float64, v study.Versus, err e
 	d.Show()
 }
 
-// adaptiveText tabulates the iterations and the comparison with uniform refinement.
+// adaptiveText tabulates the iterations and the comparison with uniform
+// refinement, as the command line prints them, under the target.
 func adaptiveText(target float64, v study.Versus, err error) string {
 	var b strings.Builder
-	fmt.Fprintf(&b, "Target: estimated relative energy-norm error ≤ %s\n\n", percent(target))
-	fmt.Fprintf(&b, "%9s %14s %14s %12s\n", "elements", "estimated", "true", "effectivity")
-	for _, it := range v.Adaptive.Iterations {
-		fmt.Fprintf(&b, "%9d %14s %14s %12s\n", it.Elements, percent(it.Estimated), percent(it.True), rateText(it.Effectivity))
-	}
-	last := v.Adaptive.Iterations[len(v.Adaptive.Iterations)-1]
-	if !v.Adaptive.Reached {
-		fmt.Fprintf(&b, "\nThe target was not reached within %d elements.\n", adaptMaxElements)
-	}
+	fmt.Fprintf(&b, "Target: estimated relative energy-norm error ≤ %.3g %%\n\n", 100*target)
+	report.WriteAdaptiveText(&b, v, err)
 	b.WriteString("\nEffectivity = estimated / true error: near 1 means the estimate can be trusted\n" +
 		"where no exact solution exists (recovery estimate after Zienkiewicz & Zhu).\n")
-	switch {
-	case err != nil:
-		fmt.Fprintf(&b, "\nUniform comparison: %v\n", err)
-	case v.UniformElements > 0:
-		fmt.Fprintf(&b, "\nA uniform mesh needs %d elements to reach the same true error (%s); the adaptive mesh has %d.\n",
-			v.UniformElements, percent(v.UniformTrue), last.Elements)
-	}
 	return b.String()
 }
 

@@ -11,7 +11,9 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
+	"stave/canvas/report"
 	"stave/fem"
+	"stave/fem/analysis"
 	"stave/fem/check"
 	"stave/fem/units"
 	"stave/storage"
@@ -32,14 +34,16 @@ type Window struct {
 	hist     history
 	solver   *solver
 	post     func(func())
-	pending  uint64    // sequence number of the newest model sent to the solver
-	result   *analysis // newest delivered analysis; nil before the first
-	checks   []checkRow
+	pending  uint64             // sequence number of the newest model sent to the solver
+	result   *result            // newest delivered analysis; nil before the first
+	checks   []analysis.Finding // the findings of result
 	selected canvas.Ref
 	tool     tool
 	kind     fem.SupportKind // support kind the support tool places
-	layers   canvas.Layers
-	units    units.System
+	// dimensions switches the dimension lines and the scale bar: a switch
+	// of the window only, which files do not keep (exports draw them).
+	dimensions bool
+	units      units.System
 	// highlight is the x range of the selected check, m.
 	highlight [2]float64
 	// adaptNodes is the mesh of the last adaptive refinement, solved on
@@ -47,7 +51,8 @@ type Window struct {
 	adaptNodes []float64
 	// convergence is the last convergence study, for its chart export; nil before one runs.
 	convergence *convergenceStudy
-	studying    bool // a study runs in the background
+	study       int // the job number of the study running in the background; 0 for none
+	jobs        *jobs
 	// note is added to the next status message, which may come from the
 	// caller of the function that set it (the name of an edit, say).
 	note string
@@ -80,8 +85,9 @@ func newWindow(a fyne.App, p *storage.Project, path string, o options) *Window {
 	}
 	w.project = cloneProject(*p)
 	w.saved = cloneProject(*p)
-	w.units = unitSystem(w.project.View.Units)
-	w.layers = layersFrom(w.project.View.Overlays)
+	w.units = report.UnitSystem(w.project.View.Units)
+	w.dimensions = true
+	w.jobs = newJobs(w.post)
 	w.win = a.NewWindow("Stave")
 	w.draw = newDrawing(w)
 	w.solver = newSolver(analysisStages, w.post, w.deliver)
@@ -110,26 +116,8 @@ func cloneProject(p storage.Project) storage.Project {
 	return c
 }
 
-func unitSystem(u storage.UnitSystem) units.System {
-	if s, ok := units.ByName(string(u)); ok {
-		return s
-	}
-	return units.SI
-}
-
-func layersFrom(o storage.Overlays) canvas.Layers {
-	return canvas.Layers{Deformed: o.DeformedShape, AxialForce: o.AxialForce, ShearForce: o.ShearForce,
-		BendingMoment: o.BendingMoment, Stress: o.Stress, Nodes: o.Nodes, ExactBand: o.ExactBand, Dimensions: true}
-}
-
-func overlaysFrom(l canvas.Layers) storage.Overlays {
-	return storage.Overlays{DeformedShape: l.Deformed, AxialForce: l.AxialForce, ShearForce: l.ShearForce,
-		BendingMoment: l.BendingMoment, Stress: l.Stress, Nodes: l.Nodes, ExactBand: l.ExactBand}
-}
-
 // dirty reports unsaved changes.
 func (w *Window) dirty() bool {
-	w.project.View.Overlays = overlaysFrom(w.layers)
 	return !reflect.DeepEqual(w.project, w.saved)
 }
 
@@ -273,24 +261,28 @@ func (w *Window) deleteSelected() {
 }
 
 // deliver takes a finished analysis on the UI goroutine.
-func (w *Window) deliver(a analysis) {
+func (w *Window) deliver(a result) {
 	if a.seq != w.pending {
 		return // stale: the model changed since
 	}
 	w.result = &a
-	w.checks = checkRows(&a)
+	w.checks = a.Findings()
 	w.draw.Refresh() // first: the results panel reads the scene's magnification
 	w.ui.showResults()
 }
 
 // checkOptions are the check limits of the project, messages in the display units.
 func (w *Window) checkOptions() check.Options {
-	return checkOptionsFor(w.project.View, w.units)
+	return report.CheckOptions(w.project.View, w.units)
 }
 
 // sceneInput gathers what the drawing shows.
 func (w *Window) sceneInput() canvas.Input {
-	in := resultInput(&w.project, w.result, w.checks, w.layers, w.units)
+	src := report.Source{Project: &w.project, Findings: w.checks, Units: w.units, Dimensions: w.dimensions}
+	if w.result != nil {
+		src.Analysis = &w.result.Analysis
+	}
+	in := report.Input(src)
 	if a := w.result; a != nil && a.seq != w.pending {
 		// Results of a slightly older model while the new one is solved:
 		// they follow the drag smoothly and are replaced within moments.

@@ -9,6 +9,7 @@ import (
 
 	"stave/fem"
 	"stave/fem/units"
+	"stave/storage"
 )
 
 // Colours, chosen to read on white paper and on the white drawing area.
@@ -78,7 +79,7 @@ func Build(in Input, v View) *Scene {
 	if in.Model == nil {
 		return b.s
 	}
-	lay := layout(in.Layers, v, reactionRows(in))
+	lay := layout(in.Overlays, v, reactionRows(in))
 	b.s.SketchBottom = lay.sketchBottom
 	b.s.MemberY = lay.memberY
 	if in.Highlight != [2]float64{} {
@@ -92,7 +93,7 @@ func Build(in Input, v View) *Scene {
 	if in.Solution != nil {
 		qs := []quantity{deflectionQuantity}
 		for _, st := range lay.strips {
-			qs = append(qs, st.diagram.quantity)
+			qs = append(qs, sampled(st.diagram.quantity))
 		}
 		cs := in.Cache.curves(in.Solution, v, qs)
 		b.deflection, b.feCurves = cs[0], cs[1:]
@@ -112,7 +113,7 @@ func (b *builder) hoverLine(x, y0, y1 float32) {
 	var gaps [][2]float32
 	for _, t := range b.texts {
 		if x >= t.At.X-2 && x <= t.At.X+t.Width+2 {
-			gaps = append(gaps, [2]float32{t.At.Y - 1, t.At.Y + textHeight(t.Size) + 1})
+			gaps = append(gaps, [2]float32{t.At.Y - 1, t.At.Y + TextHeight(t.Size) + 1})
 		}
 	}
 	slices.SortFunc(gaps, func(a, b [2]float32) int { return cmp.Compare(a[0], b[0]) })
@@ -222,7 +223,7 @@ type stripPlace struct {
 	top, bottom float32
 }
 
-func layout(l Layers, v View, rows int) layoutBands {
+func layout(l storage.Overlays, v View, rows int) layoutBands {
 	var on []diagram
 	for _, d := range diagramsList {
 		if d.enabled(l) {
@@ -277,7 +278,7 @@ func (b *builder) circle(c Point, r float32, fill, stroke color.NRGBA, width flo
 // is kept inside the scene width. It returns the box.
 func (b *builder) text(s string, x, y float32, size float32, ax, ay float32, c color.NRGBA, bold bool) rect {
 	w := textWidth(s, size, bold)
-	h := textHeight(size)
+	h := TextHeight(size)
 	left := x - ax*w
 	left = max(2, min(b.v.Width-w-2, left))
 	top := y - ay*h
@@ -288,7 +289,7 @@ func (b *builder) text(s string, x, y float32, size float32, ax, ay float32, c c
 // label places s at the first candidate anchor whose box does not overlap an
 // earlier label; if none fits it is left out unless force is set.
 func (b *builder) label(s string, size float32, c color.NRGBA, bold, force bool, cands ...labelSpot) (rect, bool) {
-	w, h := textWidth(s, size, bold), textHeight(size)
+	w, h := textWidth(s, size, bold), TextHeight(size)
 	for i, cand := range cands {
 		if cand.x < -20 || cand.x > b.v.Width+20 {
 			continue // the thing labelled is off screen

@@ -71,7 +71,7 @@ func TestHoverLineSparesLabels(t *testing.T) {
 			t.Fatalf("x = %g m: no hover line", hx)
 		}
 		for _, tx := range crossed {
-			top, bottom := tx.At.Y, tx.At.Y+textHeight(tx.Size)
+			top, bottom := tx.At.Y, tx.At.Y+TextHeight(tx.Size)
 			for _, h := range hover {
 				if h[0] < bottom && h[1] > top {
 					t.Errorf("x = %g m: the hover line from y = %g to %g crosses the label %q (y %g to %g)", hx, h[0], h[1], tx.Text, top, bottom)
@@ -172,14 +172,14 @@ func BenchmarkBuild(b *testing.B) {
 func TestDeflectedShapeBreaksAroundSegmentNames(t *testing.T) {
 	m := demoModel(40)
 	in := solved(t, m)
-	in.Layers.Deformed = true
+	in.Overlays.DeformedShape = true
 	v := NewView(1200, 900)
 	v.Fit(m)
 	// Magnified so that the curve meets the middle of the name S1.
 	s := Build(in, v)
 	for _, it := range s.Items {
 		if it.Kind == Text && it.Text == "S1 steel" {
-			x, y := it.At.X+it.Width/2, it.At.Y+textHeight(it.Size)/2
+			x, y := it.At.X+it.Width/2, it.At.Y+TextHeight(it.Size)/2
 			w := curveAt(t, s, x) - s.MemberY
 			in.Magnification = s.Magnification * float64((y-s.MemberY)/w)
 		}
@@ -200,7 +200,7 @@ func TestDeflectedShapeBreaksAroundSegmentNames(t *testing.T) {
 	}
 	crossed := 0
 	for _, n := range names {
-		box := []rect{{n.At.X, n.At.Y, n.At.X + n.Width, n.At.Y + textHeight(n.Size)}}
+		box := []rect{{n.At.X, n.At.Y, n.At.X + n.Width, n.At.Y + TextHeight(n.Size)}}
 		for _, pc := range pieces {
 			for i := 0; i+1 < len(pc); i++ {
 				if len(insideSpans(pc[i], pc[i+1], box, 0)) > 0 {

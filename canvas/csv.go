@@ -10,23 +10,6 @@ import (
 	"stave/fem/units"
 )
 
-// csvColumns are the quantities of a results table, in order.
-var csvColumns = []struct {
-	name string
-	unit units.Kind
-	get  func(fem.Fields) float64
-}{
-	{"u", units.Deflection, func(f fem.Fields) float64 { return f.AxialDisplacement }},
-	{"w", units.Deflection, func(f fem.Fields) float64 { return f.Deflection }},
-	{"theta", units.Rotation, func(f fem.Fields) float64 { return f.Rotation }},
-	{"N", units.Force, func(f fem.Fields) float64 { return f.AxialForce }},
-	{"V", units.Force, func(f fem.Fields) float64 { return f.ShearForce }},
-	{"M", units.Moment, func(f fem.Fields) float64 { return f.BendingMoment }},
-	{"sigma_axial", units.Stress, func(f fem.Fields) float64 { return f.AxialStress }},
-	{"sigma_bending", units.Stress, func(f fem.Fields) float64 { return f.BendingStress }},
-	{"sigma_combined", units.Stress, func(f fem.Fields) float64 { return f.CombinedStress }},
-}
-
 // csvPreamble opens every results table: comment lines (read with
 // csv.Reader.Comment = '#') with the caution and the sign conventions, since
 // a table travels without the window around it.
@@ -58,11 +41,13 @@ func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perEle
 	}
 	cw := csv.NewWriter(w)
 	header := []string{fmt.Sprintf("x [%s]", u.Unit(units.Position).Symbol)}
-	for _, c := range csvColumns {
-		sym := u.Unit(c.unit).Symbol
-		header = append(header, fmt.Sprintf("%s FE [%s]", c.name, sym))
+	qs := fem.Quantities()
+	for _, q := range qs {
+		c := q.Info()
+		sym := u.Unit(c.Unit).Symbol
+		header = append(header, fmt.Sprintf("%s FE [%s]", c.Column, sym))
 		if e != nil {
-			header = append(header, fmt.Sprintf("%s exact [%s]", c.name, sym))
+			header = append(header, fmt.Sprintf("%s exact [%s]", c.Column, sym))
 		}
 	}
 	if err := cw.Write(header); err != nil {
@@ -83,10 +68,11 @@ func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perEle
 				ex = e.At(x, side)
 			}
 			row = append(row[:0], num(u.ToDisplay(units.Position, x)))
-			for _, c := range csvColumns {
-				row = append(row, num(u.ToDisplay(c.unit, c.get(fe))))
+			for _, q := range qs {
+				kind := q.Info().Unit
+				row = append(row, num(u.ToDisplay(kind, q.Of(&fe))))
 				if e != nil {
-					row = append(row, num(u.ToDisplay(c.unit, c.get(ex))))
+					row = append(row, num(u.ToDisplay(kind, q.Of(&ex))))
 				}
 			}
 			if err := cw.Write(row); err != nil {

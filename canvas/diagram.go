@@ -4,32 +4,60 @@ import (
 	"fmt"
 	"image/color"
 	"math"
-	"strings"
+	"unicode"
+	"unicode/utf8"
+
+	"golang.org/x/text/encoding/charmap"
 
 	"stave/fem"
 	"stave/fem/units"
+	"stave/storage"
 )
 
 // diagram is one result strip under the sketch.
 type diagram struct {
-	quantity
-	colour color.NRGBA
+	quantity fem.Quantity
+	colour   color.NRGBA
 	// downPositive draws positive values below the axis (the bending moment
 	// on the tension side under sagging).
 	downPositive bool
 	legend       string
-	enabled      func(Layers) bool
+	enabled      func(storage.Overlays) bool
 }
 
 var diagramsList = []diagram{
-	{quantity{"Axial force", "N", units.Force, func(f *fem.Fields) float64 { return f.AxialForce }, constantInLinearBar},
-		rgb(0x2e, 0x7d, 0x32), false, "tension + drawn above", func(l Layers) bool { return l.AxialForce }},
-	{quantity{"Shear force", "V", units.Force, func(f *fem.Fields) float64 { return f.ShearForce }, constant},
-		rgb(0x15, 0x65, 0xc0), false, "V = dM/dx, + drawn above", func(l Layers) bool { return l.ShearForce }},
-	{quantity{"Bending moment", "M", units.Moment, func(f *fem.Fields) float64 { return f.BendingMoment }, sloped},
-		rgb(0x7b, 0x1f, 0xa2), true, "sagging + drawn below (tension side)", func(l Layers) bool { return l.BendingMoment }},
-	{quantity{"Combined stress", "", units.Stress, func(f *fem.Fields) float64 { return f.CombinedStress }, extremeFibre},
-		rgb(0xa8, 0x4a, 0x00), false, "tension + drawn above", func(l Layers) bool { return l.Stress }},
+	{fem.QAxialForce, rgb(0x2e, 0x7d, 0x32), false, "tension + drawn above", func(o storage.Overlays) bool { return o.AxialForce }},
+	{fem.QShearForce, rgb(0x15, 0x65, 0xc0), false, "V = dM/dx, + drawn above", func(o storage.Overlays) bool { return o.ShearForce }},
+	{fem.QBendingMoment, rgb(0x7b, 0x1f, 0xa2), true, "sagging + drawn below (tension side)", func(o storage.Overlays) bool { return o.BendingMoment }},
+	{fem.QCombinedStress, rgb(0xa8, 0x4a, 0x00), false, "tension + drawn above", func(o storage.Overlays) bool { return o.Stress }},
+}
+
+// stripCount is the number of diagram strips o switches on.
+func stripCount(o storage.Overlays) int {
+	n := 0
+	for _, d := range diagramsList {
+		if d.enabled(o) {
+			n++
+		}
+	}
+	return n
+}
+
+// quantityWords names q in the trade's words with its symbol, where the
+// symbol can be written in every export: PDF text knows only code page 1252
+// (see codePage1252), which has no Greek letters.
+func quantityWords(q fem.Quantity) string {
+	info := q.Info()
+	if _, err := charmap.Windows1252.NewEncoder().String(info.Symbol); info.Symbol == "" || err != nil {
+		return info.Name
+	}
+	return info.Name + " " + info.Symbol
+}
+
+// capitalized is s with its first letter in upper case.
+func capitalized(s string) string {
+	r, n := utf8.DecodeRuneInString(s)
+	return string(unicode.ToUpper(r)) + s[n:]
 }
 
 // diagrams draws every switched-on strip. All strips are sampled in one walk
@@ -40,12 +68,12 @@ func (b *builder) diagrams(lay layoutBands) {
 	}
 	qs := make([]quantity, len(lay.strips))
 	for i, st := range lay.strips {
-		qs[i] = st.diagram.quantity
+		qs[i] = sampled(st.diagram.quantity)
 	}
 	fe := b.feCurves
 	var ex []*curve
 	var gaps []extreme
-	if b.in.Exact != nil && b.in.Layers.ExactBand {
+	if b.in.Exact != nil && b.in.Overlays.ExactBand {
 		ex, gaps = exactCurves(b.in.Exact, b.in.Solution, b.in.Model, b.v, qs, b.in.Cache)
 	}
 	for i, st := range lay.strips {
@@ -65,7 +93,8 @@ func (b *builder) diagrams(lay layoutBands) {
 // between them, extremes and the largest gap labelled.
 func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme) {
 	d := st.diagram
-	title := strings.TrimSpace(d.name+" "+d.symbol) + " [" + b.u.Unit(d.unit).Symbol + "]"
+	unit := d.quantity.Info().Unit
+	title := capitalized(quantityWords(d.quantity)) + " [" + b.u.Unit(unit).Symbol + "]"
 	b.text(title, 8, st.top+5, titleSize, 0, 0, d.colour, true)
 	tr := rect{0, st.top, 16 + textWidth(title, titleSize, true), st.top + 22}
 	b.occupy(tr)
@@ -87,7 +116,7 @@ func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme) {
 	}
 	// Room above and below the curve for the labels of its extremes.
 	innerTop, innerBottom := st.top+40, st.bottom-20
-	if d.unit == units.Stress {
+	if unit == units.Stress {
 		innerBottom -= 12 // room for the colour band
 	}
 	span := hi - lo
@@ -106,7 +135,7 @@ func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme) {
 	if d.downPositive {
 		sign = -1
 	}
-	b.s.Strips = append(b.s.Strips, Strip{Name: d.name, Top: st.top, Bottom: st.bottom, BaselineY: baseY, UnitsPerPixel: sign * upp})
+	b.s.Strips = append(b.s.Strips, Strip{Name: capitalized(d.quantity.Info().Name), Top: st.top, Bottom: st.bottom, BaselineY: baseY, UnitsPerPixel: sign * upp})
 	l := b.in.Model.Length()
 	b.line(faintColour, 1, Point{b.clampX(b.sx(0)), baseY}, Point{b.clampX(b.sx(l)), baseY})
 	if fe == nil && ex == nil {
@@ -135,7 +164,7 @@ func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme) {
 	if len(exPts) > 0 {
 		b.line(exactColour, 0.9, exPts...)
 	}
-	if d.unit == units.Stress {
+	if unit == units.Stress {
 		b.stressBand(fe, ex, innerBottom+6, st.top+8)
 	}
 	main := fe
@@ -146,7 +175,7 @@ func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme) {
 	if ex != nil && fe != nil && gap.value != 0 && math.Abs(gap.value) > 1e-9*max(math.Abs(lo), math.Abs(hi)) {
 		gx := b.sx(gap.x)
 		b.circle(Point{gx, toY(ex.valueNear(gap.x))}, 3, color.NRGBA{}, gapColour, 1.5)
-		s := fmt.Sprintf("largest gap %s at %s", b.format(d.unit, math.Abs(gap.value)), b.format(units.Position, gap.x))
+		s := fmt.Sprintf("largest gap %s at %s", b.format(unit, math.Abs(gap.value)), b.format(units.Position, gap.x))
 		b.label(s, smallSize, rgb(0xa0, 0x10, 0x50), false, true,
 			labelSpot{gx, st.bottom - 3, 0.5, 1}, labelSpot{b.v.Width - 8, st.bottom - 3, 1, 1})
 	}
@@ -179,7 +208,7 @@ func (b *builder) extremes(c *curve, d diagram, toY func(float64) float32) {
 		if !up {
 			ay, dy = 0, 4
 		}
-		s := fmt.Sprintf("%s at %s", b.format(d.unit, e.value), b.format(units.Position, e.x))
+		s := fmt.Sprintf("%s at %s", b.format(d.quantity.Info().Unit, e.value), b.format(units.Position, e.x))
 		b.label(s, smallSize, inkColour, false, true,
 			labelSpot{px, py + dy, 0.5, ay}, labelSpot{px + 6, py + dy, 0, ay}, labelSpot{px - 6, py + dy, 1, ay},
 			labelSpot{px + 6, py, 0, 0.5})

@@ -11,6 +11,7 @@ import (
 
 	"stave/fem"
 	"stave/fem/units"
+	"stave/storage"
 )
 
 func TestWriteCSVMatchesSolution(t *testing.T) {
@@ -45,10 +46,10 @@ func TestWriteCSVMatchesSolution(t *testing.T) {
 			t.Fatalf("%s: row 5 is at x = %g, want the second element's start %g", u.Name, x, el.Start)
 		}
 		fe, ex := in.Solution.At(el.Start, fem.Right), in.Exact.At(el.Start, fem.Right)
-		for i, c := range csvColumns {
+		for i, q := range fem.Quantities() {
 			for k, f := range []fem.Fields{fe, ex} {
-				got := u.FromDisplay(c.unit, parse(t, row[1+2*i+k]))
-				want := c.get(f)
+				got := u.FromDisplay(q.Info().Unit, parse(t, row[1+2*i+k]))
+				want := q.Of(&f)
 				if math.Abs(got-want) > 1e-12*math.Max(1, math.Abs(want)) {
 					t.Errorf("%s: column %q is %g in SI, the solver's At gives %g", u.Name, header[1+2*i+k], got, want)
 				}
@@ -68,9 +69,10 @@ func parse(t *testing.T, s string) float64 {
 
 func TestSheet(t *testing.T) {
 	m := demoModel(12)
-	in := SheetInput{Input: solved(t, m), Panels: DefaultExportPanels(),
+	in := SheetInput{Input: solved(t, m),
 		Notes:  SheetNotes{Project: "Demo hall", Mark: "B1", Engineer: "A. Tester", Date: "2026-01-01", Version: "test"},
 		Checks: []string{"bending stress 165 MPa exceeds the allowable 160 MPa at x = 2.0 m"}}
+	in.Input.Overlays = storage.Overlays{DeformedShape: true, ShearForce: true, BendingMoment: true, Nodes: true, ExactBand: true}
 	var pdf bytes.Buffer
 	if err := WriteSheet(&pdf, "pdf", in); err != nil {
 		t.Fatal(err)
@@ -158,7 +160,8 @@ func TestConvergenceChart(t *testing.T) {
 func TestWriteImage(t *testing.T) {
 	in := solved(t, demoModel(10))
 	var buf bytes.Buffer
-	if err := WriteImage(&buf, "png", in, ExportPanels{BendingMoment: true}, 640, 480, 1); err != nil {
+	in.Overlays = storage.Overlays{BendingMoment: true}
+	if err := WriteImage(&buf, "png", in, 640, 480, 1); err != nil {
 		t.Fatal(err)
 	}
 	img, err := png.Decode(&buf)
@@ -168,11 +171,11 @@ func TestWriteImage(t *testing.T) {
 	if b := img.Bounds(); b.Dx() != 640 || b.Dy() != 480 {
 		t.Errorf("image is %d × %d, want 640 × 480", b.Dx(), b.Dy())
 	}
-	if err := WriteImage(&buf, "bmp", in, ExportPanels{}, 640, 480, 1); err == nil {
+	if err := WriteImage(&buf, "bmp", in, 640, 480, 1); err == nil {
 		t.Error("an unknown image format was accepted")
 	}
 	buf.Reset()
-	if err := WriteImage(&buf, "svg", in, ExportPanels{BendingMoment: true}, 640, 480, 1); err != nil {
+	if err := WriteImage(&buf, "svg", in, 640, 480, 1); err != nil {
 		t.Fatal(err)
 	}
 	if !strings.Contains(buf.String(), "qualified engineer must review") {

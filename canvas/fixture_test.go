@@ -5,6 +5,7 @@ import (
 
 	"stave/fem"
 	"stave/fem/units"
+	"stave/storage"
 )
 
 // Demo data: a steel beam of two segments on a pinned and a roller support
@@ -41,7 +42,6 @@ func solved(t testing.TB, m *fem.Model) Input {
 	if err != nil {
 		t.Fatalf("exact solution of the demo model: %v", err)
 	}
-	l := DefaultLayers()
-	l.AxialForce, l.Stress, l.Nodes = true, true, true
-	return Input{Model: m, Solution: s, Exact: e, Layers: l, Units: units.SI}
+	o := storage.Overlays{DeformedShape: true, AxialForce: true, ShearForce: true, BendingMoment: true, Stress: true, Nodes: true, ExactBand: true}
+	return Input{Model: m, Solution: s, Exact: e, Overlays: o, Dimensions: true, Units: units.SI}
 }

@@ -3,24 +3,8 @@ package canvas
 import (
 	"stave/fem"
 	"stave/fem/units"
+	"stave/storage"
 )
-
-// Layers switches optional parts of the drawing on and off.
-type Layers struct {
-	Deformed      bool // deformed shape over the member
-	AxialForce    bool // axial force diagram strip
-	ShearForce    bool // shear force diagram strip
-	BendingMoment bool // bending moment diagram strip
-	Stress        bool // combined stress strip with a colour legend
-	Nodes         bool // node ticks and the element count
-	ExactBand     bool // exact curve over each diagram and the shaded gap to it
-	Dimensions    bool // dimension lines and the scale bar
-}
-
-// DefaultLayers is what a new drawing shows.
-func DefaultLayers() Layers {
-	return Layers{Deformed: true, ShearForce: true, BendingMoment: true, ExactBand: true, Dimensions: true}
-}
 
 // Input is everything Build draws. Solution and Exact may be nil (not solved
 // yet, or the solver failed: then Problem says why).
@@ -32,7 +16,13 @@ type Input struct {
 	Problem string
 	// Unreliable marks every strip with a warning (ill-conditioned or failed checks).
 	Unreliable bool
-	Layers     Layers
+	// Overlays switch the deformed shape, the diagram strips (axial force,
+	// shear force, bending moment, combined stress with a colour legend),
+	// the node ticks and the exact curve with its gap on and off: the
+	// project's own switches, as the window shows and the file saves them.
+	Overlays storage.Overlays
+	// Dimensions draws the dimension lines and the scale bar.
+	Dimensions bool
 	// Magnification of deflections in the deformed shape; 0 picks one so the
 	// largest deflection is about 15% of the sketch band height.
 	Magnification float64

@@ -10,10 +10,6 @@ import (
 	"strings"
 	"testing"
 
-	"fyne.io/fyne/v2"
-	fynecanvas "fyne.io/fyne/v2/canvas"
-	"fyne.io/fyne/v2/test"
-
 	"stave/fem/units"
 )
 
@@ -139,47 +135,18 @@ var pageObject = regexp.MustCompile(`/Type\s*/Page[^s]`)
 
 func countPages(pdf []byte) int { return len(pageObject.FindAll(pdf, -1)) }
 
-func TestDrawForFyne(t *testing.T) {
-	test.NewTempApp(t)
+// The screen's raster holds every shape, not the text, on a transparent
+// background, at the size the screen asks for.
+func TestRasterize(t *testing.T) {
 	s, _ := demoScene(t)
-	objs := Draw(s)
-	texts := 0
-	for _, it := range s.Items {
-		if it.Kind == Text {
-			texts++
-		}
+	img := Rasterize(s, int(s.Width), int(s.Height))
+	if b := img.Bounds(); b.Dx() != int(s.Width) || b.Dy() != int(s.Height) {
+		t.Errorf("raster is %d × %d, want the scene size %g × %g", b.Dx(), b.Dy(), s.Width, s.Height)
 	}
-	if len(objs) != texts+2 {
-		t.Errorf("Draw made %d objects for %d labels, want a background, a raster and one per label", len(objs), texts)
-	}
-	r, ok := objs[1].(*fynecanvas.Raster)
-	if !ok {
-		t.Fatalf("second object is %T, want the raster of shapes", objs[1])
-	}
-	if r.Size() != fyne.NewSize(s.Width, s.Height) {
-		t.Errorf("raster is %v, want the scene size", r.Size())
-	}
-	img := r.Generator(int(s.Width), int(s.Height))
 	if !darkNear(img, int(s.Width/2), int(s.MemberY)) {
 		t.Error("the raster has no member line at the scene's member y")
 	}
 	if _, _, _, a := img.At(3, int(s.MemberY)).RGBA(); a != 0 {
 		t.Error("the raster background is not transparent")
-	}
-	// Each label fits the width the scene laid it out with, in the screen's
-	// font too: a long bold warning once ran 37 px past its box.
-	s.Items = append(s.Items, Item{Kind: Text, Bold: true, Size: problemSize, Stroke: problemColour,
-		Text:  "free motion: the member can rotate about the support at x = 0.0 m: add a second support or fix one",
-		Width: textWidth("free motion: the member can rotate about the support at x = 0.0 m: add a second support or fix one", problemSize, true)})
-	for _, o := range Draw(s)[2:] {
-		txt := o.(*fynecanvas.Text)
-		for _, it := range s.Items {
-			if it.Kind == Text && it.Text == txt.Text {
-				if got := fyne.MeasureText(txt.Text, txt.TextSize, txt.TextStyle).Width; got > it.Width+0.5 {
-					t.Errorf("label %q is %.1f px wide on screen, laid out for %.1f", it.Text, got, it.Width)
-				}
-				break
-			}
-		}
 	}
 }

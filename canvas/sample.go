@@ -2,21 +2,21 @@ package canvas
 
 import (
 	"math"
+	"slices"
 	"sort"
 
 	"stave/fem"
-	"stave/fem/units"
 )
 
-// quantity is one result read from fem.Fields.
+// quantity is one result quantity as the sampler reads it: with how it
+// varies inside an element.
 type quantity struct {
-	name   string
-	symbol string
-	unit   units.Kind
-	get    func(*fem.Fields) float64
-	// within says how the quantity varies inside an element.
+	fem.Quantity
 	within variation
 }
+
+// sampled is q with its variation (see variations).
+func sampled(q fem.Quantity) quantity { return quantity{q, variations[q]} }
 
 // variation is how a quantity varies inside an element, which decides what
 // must be read to know its value at the element's end. Hermite beam elements
@@ -43,7 +43,17 @@ const (
 	extremeFibre
 )
 
-var deflectionQuantity = quantity{"deflection", "w", units.Deflection, func(f *fem.Fields) float64 { return f.Deflection }, nodal}
+// variations classifies the quantities whose ends can be known without
+// reading them; every other quantity is general.
+var variations = map[fem.Quantity]variation{
+	fem.QDeflection:     nodal,
+	fem.QAxialForce:     constantInLinearBar,
+	fem.QShearForce:     constant,
+	fem.QBendingMoment:  sloped,
+	fem.QCombinedStress: extremeFibre,
+}
+
+var deflectionQuantity = sampled(fem.QDeflection)
 
 // extreme is a value and where it occurs.
 type extreme struct{ x, value float64 }
@@ -241,7 +251,7 @@ func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, t
 	add := func(x float64, f *fem.Fields) {
 		k := cs[0].column(x)
 		for i := range qs {
-			cs[i].addTo(k, x, qs[i].get(f))
+			cs[i].addTo(k, x, qs[i].Of(f))
 		}
 	}
 	// What a narrow element's ends need: an evaluation at the start unless
@@ -302,7 +312,7 @@ func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, t
 			if q.within == nodal && !last || q.within == constant && subPixel {
 				continue
 			}
-			cs[i].addTo(kEnd, e.End, q.get(end))
+			cs[i].addTo(kEnd, e.End, q.Of(end))
 		}
 	}
 }
@@ -345,10 +355,10 @@ func exactCurves(e *fem.Exact, s *fem.Solution, m *fem.Model, v View, qs []quant
 			*g = s.At(x, side)
 		}
 		for i, q := range qs {
-			ev := q.get(f)
+			ev := q.Of(f)
 			cs[i].add(x, ev)
 			if s != nil {
-				if d := q.get(g) - ev; math.Abs(d) > math.Abs(gaps[i].value) {
+				if d := q.Of(g) - ev; math.Abs(d) > math.Abs(gaps[i].value) {
 					gaps[i] = extreme{x, d}
 				}
 			}
@@ -382,7 +392,7 @@ type Cache struct {
 	solution  *fem.Solution
 	x0, scale float64
 	width     float32
-	names     string
+	drawn     []fem.Quantity
 	sampled   []*curve
 	half      []*curve // memory for the second half of a two-goroutine read
 	exact     []*curve // memory for the exact curves, read anew each build
@@ -399,17 +409,17 @@ func grow(cs *[]*curve, n int) []*curve {
 // curves returns the sampled curves of qs, reading the solution only when the
 // solution, the view's x transform or the quantities changed.
 func (c *Cache) curves(s *fem.Solution, v View, qs []quantity) []*curve {
-	names := ""
-	for _, q := range qs {
-		names += q.name + ";"
+	drawn := make([]fem.Quantity, len(qs))
+	for i, q := range qs {
+		drawn[i] = q.Quantity
 	}
 	if c == nil {
 		c = &Cache{}
-	} else if c.solution == s && c.x0 == v.X0 && c.scale == v.Scale && c.width == v.Width && c.names == names {
+	} else if c.solution == s && c.x0 == v.X0 && c.scale == v.Scale && c.width == v.Width && slices.Equal(c.drawn, drawn) {
 		return c.sampled[:len(qs)]
 	}
 	cs := grow(&c.sampled, len(qs))
 	sampleCurves(s, v, qs, cs, grow(&c.half, len(qs)))
-	c.solution, c.x0, c.scale, c.width, c.names = s, v.X0, v.Scale, v.Width, names
+	c.solution, c.x0, c.scale, c.width, c.drawn = s, v.X0, v.Scale, v.Width, drawn
 	return cs
 }

@@ -38,7 +38,7 @@ func sampledByAt(s *fem.Solution, v View, qs []quantity) []*curve {
 				repeat := inner == 0 && j == 1 && (q.within == nodal && n < len(visible)-1 ||
 					q.within == constant && (e.End-e.Start)*v.Scale < 1)
 				if !repeat {
-					cs[i].add(x, q.get(&f))
+					cs[i].add(x, q.Of(&f))
 				}
 			}
 		}
@@ -58,11 +58,11 @@ func sampledByAt(s *fem.Solution, v View, qs []quantity) []*curve {
 func TestSampleCurvesMatchReadingEveryEnd(t *testing.T) {
 	var drawn []quantity
 	for _, d := range diagramsList {
-		drawn = append(drawn, d.quantity)
+		drawn = append(drawn, sampled(d.quantity))
 	}
 	drawn = append(drawn, deflectionQuantity)
 	// A quantity left unclassified is read at both ends.
-	rotation := quantity{name: "rotation", get: func(f *fem.Fields) float64 { return f.Rotation }}
+	rotation := sampled(fem.QRotation)
 	for _, c := range []struct {
 		elements int
 		order    fem.ElementOrder
@@ -79,7 +79,7 @@ func TestSampleCurvesMatchReadingEveryEnd(t *testing.T) {
 		{2 * parallelElements, fem.QuadraticBar, 1, drawn},
 	} {
 		qs := c.qs
-		t.Run(fmt.Sprintf("%d elements, bar order %d, zoom %g, %s…", c.elements, c.order, c.zoom, qs[0].name), func(t *testing.T) {
+		t.Run(fmt.Sprintf("%d elements, bar order %d, zoom %g, %s…", c.elements, c.order, c.zoom, qs[0].Quantity), func(t *testing.T) {
 			m := demoModel(c.elements)
 			m.Mesh.BarOrder = c.order
 			m.PointLoads[1].Axial = 60e3 // a varying axial force in the second segment
@@ -100,7 +100,7 @@ func TestSampleCurvesMatchReadingEveryEnd(t *testing.T) {
 				tol := 1e-9 * max(math.Abs(w.lo.value), math.Abs(w.hi.value))
 				near := func(a, b extreme) bool { return math.Abs(a.value-b.value) <= tol }
 				if g.n != w.n || !near(g.lo, w.lo) || !near(g.hi, w.hi) {
-					t.Errorf("%s: %d samples from %g to %g, want %d from %g to %g", q.name, g.n, g.lo.value, g.hi.value, w.n, w.lo.value, w.hi.value)
+					t.Errorf("%s: %d samples from %g to %g, want %d from %g to %g", q.Quantity, g.n, g.lo.value, g.hi.value, w.n, w.lo.value, w.hi.value)
 					continue
 				}
 				bad := 0
@@ -109,7 +109,7 @@ func TestSampleCurvesMatchReadingEveryEnd(t *testing.T) {
 					if a.n != b.n || a.first.x != b.first.x || a.last.x != b.last.x ||
 						!near(a.first, b.first) || !near(a.last, b.last) || !near(a.lo, b.lo) || !near(a.hi, b.hi) {
 						if bad++; bad <= 3 {
-							t.Errorf("%s, column %d: got %+v, want %+v", q.name, k, a, b)
+							t.Errorf("%s, column %d: got %+v, want %+v", q.Quantity, k, a, b)
 						}
 					}
 				}

@@ -1,7 +1,9 @@
 // Package canvas turns a member model and its results into a scene, a
 // display list of polylines, polygons, circles and text in pixels, and draws
-// that one scene to the Fyne canvas (Draw) and to PNG, SVG and PDF (WritePNG,
-// WriteSVG, WritePDF), so a report shows exactly what the screen showed.
+// that one scene to PNG, SVG and PDF (WritePNG, WriteSVG, WritePDF) and, for
+// the screen, to a raster of its shapes (Rasterize) under text that the
+// window sets itself (package app), so a report shows exactly what the
+// screen showed. It imports no GUI toolkit.
 //
 // The path is Input + View -> Build -> Scene -> renderer. Build lays out a
 // sketch band (member, supports, loads, deformed shape, dimension line, scale
@@ -12,7 +14,7 @@
 //
 // The package also writes the report products: a one-page calculation sheet
 // (WriteSheet), a convergence chart (WriteConvergenceChart) and a table of
-// results (WriteCSV).
+// results (WriteCSV); package canvas/report makes them from an analysis.
 package canvas
 
 import (

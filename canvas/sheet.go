@@ -19,11 +19,10 @@ type SheetNotes struct {
 }
 
 // SheetInput is what a calculation sheet shows. Input carries the model,
-// results and unit system; Panels picks the diagrams.
+// results, unit system and the overlays that pick the diagrams.
 type SheetInput struct {
-	Input  Input
-	Notes  SheetNotes
-	Panels ExportPanels
+	Input Input
+	Notes SheetNotes
 	// Checks are the failed or warned checks, one sentence each.
 	Checks []string
 }
@@ -59,13 +58,13 @@ func (sh *sheet) row(cols []string, xs []float32, size float32, c color.NRGBA, b
 	for i, s := range cols {
 		sh.b.text(s, xs[i], sh.y, size, 0, 0, c, bold)
 	}
-	sh.y += textHeight(size) + 1
+	sh.y += TextHeight(size) + 1
 }
 
 func (sh *sheet) heading(s string) {
 	sh.y += 5
 	sh.b.text(s, sheetEdge, sh.y, 10, 0, 0, inkColour, true)
-	sh.y += textHeight(10) + 1
+	sh.y += TextHeight(10) + 1
 	sh.b.line(faintColour, 0.5, Point{sheetEdge, sh.y}, Point{a4Width - sheetEdge, sh.y})
 	sh.y += 2
 }
@@ -100,10 +99,9 @@ func buildSheet(in SheetInput) *Scene {
 	// diagramScale so its labels sit close to the size of the table text.
 	sh.heading("Diagrams")
 	di := in.Input
-	di.Layers = in.Panels.layers(di.Layers)
 	di.Selected, di.Hovering, di.Highlight, di.Cache = Ref{}, false, [2]float64{}, nil
-	room := float32(a4Height-sheetEdge-3*textHeight(sheetText)) - sh.y - sh.reserve(in)
-	dh := min(float32(300+120*in.Panels.count())*diagramScale, room)
+	room := float32(a4Height-sheetEdge-3*TextHeight(sheetText)) - sh.y - sh.reserve(in)
+	dh := min(float32(300+120*stripCount(in.Input.Overlays))*diagramScale, room)
 	dw := float32(right - sheetEdge)
 	v := NewView(dw/diagramScale, dh/diagramScale)
 	v.Fit(in.Input.Model)
@@ -128,10 +126,10 @@ func buildSheet(in SheetInput) *Scene {
 		}
 	}
 	// The caution sits at the foot of the page whatever the content above.
-	foot := float32(a4Height - sheetEdge - 2*textHeight(sheetText))
+	foot := float32(a4Height - sheetEdge - 2*TextHeight(sheetText))
 	b.line(inkColour, 0.75, Point{sheetEdge, foot - 4}, Point{right, foot - 4})
 	for i, ln := range wrap(Caution, sheetText, true, right-sheetEdge) {
-		b.text(ln, sheetEdge, foot+float32(i)*textHeight(sheetText), sheetText, 0, 0, inkColour, true)
+		b.text(ln, sheetEdge, foot+float32(i)*TextHeight(sheetText), sheetText, 0, 0, inkColour, true)
 	}
 	return b.scene()
 }
@@ -156,7 +154,7 @@ func appendScene(dst, src *Scene, dx, dy, k float32) {
 
 // reserve is the height the results and checks below the diagrams take.
 func (sh *sheet) reserve(in SheetInput) float32 {
-	line := textHeight(sheetSmall) + 1
+	line := TextHeight(sheetSmall) + 1
 	h := float32(0)
 	if s := in.Input.Solution; s != nil {
 		h += 2*line*float32(4+len(s.Reactions)+len(s.Warnings)) + 12*line + 30
@@ -230,20 +228,6 @@ func (sh *sheet) modelTable(m *fem.Model, u units.System) {
 	}
 }
 
-// summaryUnits maps fem.Summary quantity names to display quantities.
-var summaryUnits = map[string]units.Kind{
-	"AxialDisplacement": units.Deflection, "Deflection": units.Deflection, "Rotation": units.Rotation,
-	"AxialForce": units.Force, "ShearForce": units.Force, "BendingMoment": units.Moment,
-	"AxialStress": units.Stress, "BendingStress": units.Stress, "CombinedStress": units.Stress,
-}
-
-// summaryNames are the trade's words for the fem.Summary quantity names.
-var summaryNames = map[string]string{
-	"AxialDisplacement": "axial displacement u", "Deflection": "deflection w", "Rotation": "rotation",
-	"AxialForce": "axial force N", "ShearForce": "shear force V", "BendingMoment": "bending moment M",
-	"AxialStress": "axial stress N/A", "BendingStress": "bending stress Mc/I", "CombinedStress": "combined stress",
-}
-
 func (sh *sheet) resultsTable(sum fem.Summary, u units.System) {
 	f := u.Format
 	sh.heading("Results")
@@ -257,8 +241,8 @@ func (sh *sheet) resultsTable(sum fem.Summary, u units.System) {
 	xs = []float32{sheetEdge, sheetEdge + 110, sheetEdge + 200, sheetEdge + 300, sheetEdge + 390}
 	sh.row([]string{"quantity", "largest", "at", "smallest", "at"}, xs, sheetSmall, faintColour, true)
 	for _, e := range sum.Extremes {
-		q := summaryUnits[e.Quantity]
-		sh.row([]string{summaryNames[e.Quantity], f(q, e.Max), f(units.Position, e.XMax), f(q, e.Min), f(units.Position, e.XMin)},
+		q := e.Quantity.Info().Unit
+		sh.row([]string{quantityWords(e.Quantity), f(q, e.Max), f(units.Position, e.XMax), f(q, e.Min), f(units.Position, e.XMin)},
 			xs, sheetSmall, inkColour, false)
 	}
 	sh.y += 3

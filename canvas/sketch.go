@@ -30,7 +30,7 @@ func (b *builder) sketch(lay layoutBands) {
 	b.line(memberColour, memberWidth, Point{x0, y}, Point{x1, y})
 	b.handle(Ref{Kind: Member}, memberWidth/2, Point{x0, y}, Point{x1, y})
 	b.segments(y)
-	if b.in.Layers.Nodes && b.in.Solution != nil {
+	if b.in.Overlays.Nodes && b.in.Solution != nil {
 		b.nodeTicks(y, lay.top)
 	}
 	end := Point{b.sx(l), y}
@@ -42,14 +42,14 @@ func (b *builder) sketch(lay layoutBands) {
 		b.pointLoad(i, p, y)
 	}
 	// Fixed-place labels first, so the movable ones avoid them.
-	if b.in.Layers.Dimensions {
+	if b.in.Dimensions {
 		b.dimensions(y)
 		b.scaleBar(lay.top)
 	}
 	if b.in.Solution != nil {
 		b.reactions(y)
 	}
-	if b.in.Layers.Deformed && b.in.Solution != nil {
+	if b.in.Overlays.DeformedShape && b.in.Solution != nil {
 		b.deformed(lay)
 	}
 	if b.in.Problem != "" {
@@ -521,10 +521,10 @@ func intensityAt(pts []fem.LoadPoint, x float64) float64 {
 // problem shows the solver's complaint in the sketch band.
 func (b *builder) problem(lay layoutBands) {
 	lines := wrap(b.in.Problem, problemSize, true, b.v.Width-60)
-	h := textHeight(problemSize)
+	h := TextHeight(problemSize)
 	y := lay.top + 30
 	if b.in.Unreliable { // below the "UNRELIABLE RESULTS" line, not over it
-		y += textHeight(labelSize) + 4
+		y += TextHeight(labelSize) + 4
 	}
 	wmax := float32(0)
 	for _, ln := range lines {

@@ -16,7 +16,7 @@ func texts(s *Scene) map[string]rect {
 	out := map[string]rect{}
 	for _, it := range s.Items {
 		if it.Kind == Text {
-			out[it.Text] = rect{it.At.X, it.At.Y, it.At.X + it.Width, it.At.Y + textHeight(it.Size)}
+			out[it.Text] = rect{it.At.X, it.At.Y, it.At.X + it.Width, it.At.Y + TextHeight(it.Size)}
 		}
 	}
 	return out
@@ -127,7 +127,7 @@ func TestDeflectionLabelMatchesSummary(t *testing.T) {
 		s := Build(in, v)
 		var peak fem.Extreme
 		for _, e := range fem.Summarize(in.Solution, nil).Extremes {
-			if e.Quantity == "Deflection" {
+			if e.Quantity == fem.QDeflection {
 				peak = e
 			}
 		}

@@ -86,5 +86,5 @@ func splitSuperscripts(s string) []textRun {
 	return runs
 }
 
-// textHeight is the height of a text box of the given pixel size.
-func textHeight(size float32) float32 { return size * 1.2 }
+// TextHeight is the height of a text box of the given pixel size.
+func TextHeight(size float32) float32 { return size * 1.2 }

@@ -2,6 +2,7 @@ package canvas
 
 import (
 	"fmt"
+	"image"
 	"image/color"
 	"io"
 	"math"
@@ -219,4 +220,16 @@ func codePage1252(s string) string {
 		}
 	}
 	return b.String()
+}
+
+// Rasterize paints the scene's shapes, without text, into a w × h image on a
+// transparent background: the screen draws the text itself, in its own font.
+func Rasterize(s *Scene, w, h int) image.Image {
+	if w <= 0 || h <= 0 || s.Width <= 0 {
+		return image.NewNRGBA(image.Rect(0, 0, 1, 1))
+	}
+	c := vgimg.NewWith(vgimg.UseWH(vg.Length(w), vg.Length(h)), vgimg.UseDPI(72), vgimg.UseBackgroundColor(color.Transparent))
+	k := float64(w) / float64(s.Width)
+	drawScene(c, s, vg.Point{Y: vg.Length(h)}, k, noText)
+	return c.Image()
 }

@@ -1,6 +1,10 @@
 package fem
 
-import "stave/fem/units"
+import (
+	"fmt"
+
+	"stave/fem/units"
+)
 
 // Quantity names one result quantity of Fields. Every output (summaries,
 // the calculation sheet, CSV tables, the diagrams, the window's readout and
@@ -31,6 +35,8 @@ type QuantityInfo struct {
 	Name string
 	// Symbol is its usual letter or formula: "M", "N/A".
 	Symbol string
+	// Label is a short label for narrow readouts, symbol first: "M bending".
+	Label string
 	// Column is its name in a CSV header: short, ASCII, no spaces.
 	Column string
 	// Unit is the kind of value, which picks the display unit.
@@ -40,15 +46,15 @@ type QuantityInfo struct {
 }
 
 var quantityInfo = [quantityCount]QuantityInfo{
-	QAxialDisplacement: {"AxialDisplacement", "axial displacement", "u", "u", units.Deflection, "m"},
-	QDeflection:        {"Deflection", "deflection", "w", "w", units.Deflection, "m"},
-	QRotation:          {"Rotation", "rotation", "θ", "theta", units.Rotation, "rad"},
-	QAxialForce:        {"AxialForce", "axial force", "N", "N", units.Force, "N"},
-	QShearForce:        {"ShearForce", "shear force", "V", "V", units.Force, "N"},
-	QBendingMoment:     {"BendingMoment", "bending moment", "M", "M", units.Moment, "N·m"},
-	QAxialStress:       {"AxialStress", "axial stress", "N/A", "sigma_axial", units.Stress, "Pa"},
-	QBendingStress:     {"BendingStress", "bending stress", "Mc/I", "sigma_bending", units.Stress, "Pa"},
-	QCombinedStress:    {"CombinedStress", "combined stress", "", "sigma_combined", units.Stress, "Pa"},
+	QAxialDisplacement: {"AxialDisplacement", "axial displacement", "u", "u axial", "u", units.Deflection, "m"},
+	QDeflection:        {"Deflection", "deflection", "w", "w deflection", "w", units.Deflection, "m"},
+	QRotation:          {"Rotation", "rotation", "θ", "θ rotation", "theta", units.Rotation, "rad"},
+	QAxialForce:        {"AxialForce", "axial force", "N", "N axial force", "N", units.Force, "N"},
+	QShearForce:        {"ShearForce", "shear force", "V", "V shear force", "V", units.Force, "N"},
+	QBendingMoment:     {"BendingMoment", "bending moment", "M", "M bending", "M", units.Moment, "N·m"},
+	QAxialStress:       {"AxialStress", "axial stress", "N/A", "σ axial N/A", "sigma_axial", units.Stress, "Pa"},
+	QBendingStress:     {"BendingStress", "bending stress", "Mc/I", "σ bending Mc/I", "sigma_bending", units.Stress, "Pa"},
+	QCombinedStress:    {"CombinedStress", "combined stress", "", "σ combined", "sigma_combined", units.Stress, "Pa"},
 }
 
 // Quantities lists every result quantity in report order.
@@ -74,6 +80,14 @@ func (q Quantity) String() string {
 		return n
 	}
 	return "unknown quantity"
+}
+
+// MarshalText writes q as its Field name, as JSON summaries name it.
+func (q Quantity) MarshalText() ([]byte, error) {
+	if q.Info().Field == "" {
+		return nil, fmt.Errorf("fem: quantity %d is not in the table", int(q))
+	}
+	return []byte(q.Info().Field), nil
 }
 
 // ParseQuantity finds the quantity whose Field, Name or Column is s.

@@ -5,12 +5,12 @@ import "math"
 // Extreme is the largest and smallest value of one result quantity along the
 // member and where each occurs.
 type Extreme struct {
-	Quantity string  `json:"quantity"` // the Fields name, e.g. "BendingMoment"
-	Unit     string  `json:"unit"`     // SI unit of Max and Min
-	Max      float64 `json:"max"`
-	XMax     float64 `json:"x_max"` // m
-	Min      float64 `json:"min"`
-	XMin     float64 `json:"x_min"` // m
+	Quantity Quantity `json:"quantity"` // written as its Fields name, e.g. "BendingMoment"
+	Unit     string   `json:"unit"`     // SI unit of Max and Min
+	Max      float64  `json:"max"`
+	XMax     float64  `json:"x_max"` // m
+	Min      float64  `json:"min"`
+	XMin     float64  `json:"x_min"` // m
 }
 
 // MeshSummary describes the discretisation a solution was computed on.
@@ -57,22 +57,6 @@ type Summary struct {
 	Warnings    []string           `json:"warnings"`
 }
 
-// summaryQuantities lists the fields reported as extremes, with their SI units.
-var summaryQuantities = []struct {
-	name, unit string
-	get        func(Fields) float64
-}{
-	{"AxialDisplacement", "m", func(f Fields) float64 { return f.AxialDisplacement }},
-	{"Deflection", "m", func(f Fields) float64 { return f.Deflection }},
-	{"Rotation", "rad", func(f Fields) float64 { return f.Rotation }},
-	{"AxialForce", "N", func(f Fields) float64 { return f.AxialForce }},
-	{"ShearForce", "N", func(f Fields) float64 { return f.ShearForce }},
-	{"BendingMoment", "N·m", func(f Fields) float64 { return f.BendingMoment }},
-	{"AxialStress", "Pa", func(f Fields) float64 { return f.AxialStress }},
-	{"BendingStress", "Pa", func(f Fields) float64 { return f.BendingStress }},
-	{"CombinedStress", "Pa", func(f Fields) float64 { return f.CombinedStress }},
-}
-
 // summarySamples bounds the work of finding extremes on very fine meshes:
 // about this many points in all, and never fewer than the element ends.
 const summarySamples = 20000
@@ -81,9 +65,10 @@ const summarySamples = 20000
 // meshes), and keeps the running largest and smallest value of every
 // reported quantity, so its memory does not grow with the mesh.
 func extremes(s *Solution) []Extreme {
-	out := make([]Extreme, len(summaryQuantities))
-	for i, q := range summaryQuantities {
-		out[i] = Extreme{Quantity: q.name, Unit: q.unit, Max: math.Inf(-1), Min: math.Inf(1)}
+	qs := Quantities()
+	out := make([]Extreme, len(qs))
+	for i, q := range qs {
+		out[i] = Extreme{Quantity: q, Unit: q.Info().SI, Max: math.Inf(-1), Min: math.Inf(1)}
 	}
 	n := len(s.Mesh.Elements)
 	if n == 0 || len(s.fields) == 0 {
@@ -103,8 +88,8 @@ func extremes(s *Solution) []Extreme {
 				x = s.Mesh.X[e+1]
 			}
 			f := s.InElement(e, x)
-			for i, q := range summaryQuantities {
-				v := q.get(f)
+			for i, q := range qs {
+				v := q.Of(&f)
 				if v > out[i].Max {
 					out[i].Max, out[i].XMax = v, f.X
 				}
@@ -115,8 +100,8 @@ func extremes(s *Solution) []Extreme {
 		}
 	}
 	// The deflection peaks inside elements, where their cubic has zero slope.
-	for i, q := range summaryQuantities {
-		if q.name == "Deflection" {
+	for i, q := range qs {
+		if q == QDeflection {
 			out[i].XMax, out[i].Max = s.DeflectionExtremum(out[i].XMax, true)
 			out[i].XMin, out[i].Min = s.DeflectionExtremum(out[i].XMin, false)
 		}

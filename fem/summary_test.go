@@ -32,11 +32,11 @@ func TestSummarizeSimplySupportedUniform(t *testing.T) {
 			t.Errorf("support %d reaction %g, want %g", r.Support, r.Transverse, -q*L/2)
 		}
 	}
-	byName := map[string]Extreme{}
+	byQuantity := map[Quantity]Extreme{}
 	for _, e := range sum.Extremes {
-		byName[e.Quantity] = e
+		byQuantity[e.Quantity] = e
 	}
-	moment := byName["BendingMoment"]
+	moment := byQuantity[QBendingMoment]
 	// Nodal values are exact and midspan is a node (16 elements), so the
 	// moment from w'' at a node differs from qL²/8 by at most the element's
 	// fixed-end moment qh²/12 (Hermite moment error, see fem/refcase_test.go).
@@ -44,7 +44,7 @@ func TestSummarizeSimplySupportedUniform(t *testing.T) {
 	if want := -q * L * L / 8; math.Abs(moment.Max-want) > math.Abs(q)*h*h/12*(1+1e-9) || math.Abs(moment.XMax-L/2) > h/2 {
 		t.Errorf("largest moment %g at %g, want %g at %g", moment.Max, moment.XMax, want, L/2)
 	}
-	defl := byName["Deflection"]
+	defl := byQuantity[QDeflection]
 	if want := 5 * q * L * L * L * L / (384 * E * I); math.Abs(defl.Min-want) > 1e-9*math.Abs(want) || defl.XMin != L/2 {
 		t.Errorf("deflection %g at %g, want %g at %g", defl.Min, defl.XMin, want, L/2)
 	}
@@ -76,7 +76,7 @@ func TestDeflectionExtremeAtZeroSlope(t *testing.T) {
 	wantX := math.Sqrt((testL*testL - b*b) / 3)
 	wantW := testP * b * math.Pow(testL*testL-b*b, 1.5) / (9 * math.Sqrt(3) * testL * testE * testI)
 	for _, e := range Summarize(s, nil).Extremes {
-		if e.Quantity != "Deflection" {
+		if e.Quantity != QDeflection {
 			continue
 		}
 		if math.Abs(e.XMin-wantX) > 1e-9 || relErr(e.Min, wantW) > 1e-9 {

@@ -2,13 +2,14 @@ package main
 
 import (
 	"bytes"
+	"context"
 	"fmt"
 	"io"
 	"os"
 	"path/filepath"
 	"strings"
 
-	"stave/app"
+	"stave/canvas/report"
 	"stave/storage"
 )
 
@@ -40,8 +41,8 @@ func exportCommand(args []string, stdout io.Writer) error {
 		return modelError{err}
 	}
 	var buf bytes.Buffer
-	opts := app.ExportOptions{Width: float32(*width), Height: float32(*height), DPI: *dpi}
-	if err := app.Export(&buf, p, kind, opts); err != nil {
+	opts := report.Options{Width: float32(*width), Height: float32(*height), DPI: *dpi}
+	if err := report.Export(context.Background(), &buf, p, kind, opts); err != nil {
 		return modelError{fmt.Errorf("%s: %w", path, err)}
 	}
 	if err := os.WriteFile(*out, buf.Bytes(), 0o644); err != nil {

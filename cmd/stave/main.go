@@ -19,15 +19,12 @@ import (
 	"io"
 	"os"
 
-	"stave/app"
-	"stave/fem"
+	"stave/canvas/report"
+	_ "stave/cmd/stave/internal/plainlocale" // before the GUI toolkit reads the locale
 )
 
 // version is the Stave release; it also appears on calculation sheets.
 const version = "0.1.0"
-
-// caution goes with every printed result.
-const caution = fem.Caution
 
 // usageError marks misuse of the command line (exit status 2).
 type usageError struct{ msg string }
@@ -49,8 +46,11 @@ const usage = `usage:
   stave version
 `
 
+// The calculation sheets and the solve text name the version, from the
+// window or the command line.
+func init() { report.Version = version }
+
 func main() {
-	app.Version = version // calculation sheets name the version, from the window or the command line
 	os.Exit(run(os.Args[1:], os.Stdout, os.Stderr))
 }
 

@@ -1,6 +1,7 @@
 package study
 
 import (
+	"context"
 	"fmt"
 	"math"
 
@@ -34,8 +35,9 @@ const refineFraction = 0.5
 // Adapt refines m's mesh until the estimated relative energy-norm error is
 // at most target or the next mesh would exceed maxElements. It starts from
 // two elements per stretch between key points, so that every patch holds
-// enough superconvergent points for the recovery.
-func Adapt(m *fem.Model, target float64, maxElements int) (Adaptive, error) {
+// enough superconvergent points for the recovery. It stops with ctx's
+// error, and the iterations so far, when ctx is done before a mesh.
+func Adapt(ctx context.Context, m *fem.Model, target float64, maxElements int) (Adaptive, error) {
 	if !(target > 0) {
 		return Adaptive{}, fmt.Errorf("adaptive refinement: the target error must be positive, got %g", target)
 	}
@@ -49,6 +51,9 @@ func Adapt(m *fem.Model, target float64, maxElements int) (Adaptive, error) {
 	nodes := subdivide(keys, 2)
 	var out Adaptive
 	for {
+		if err := ctx.Err(); err != nil {
+			return out, err
+		}
 		s, err := solveOn(m, nodes)
 		if err != nil {
 			return out, err
@@ -206,9 +211,9 @@ type Versus struct {
 // AgainstUniform runs Adapt and then finds the fewest elements a uniform
 // mesh (every stretch divided in proportion to its length, as BuildMesh
 // does) needs to reach the same true error, searching up to maxUniform
-// elements.
-func AgainstUniform(m *fem.Model, target float64, maxElements, maxUniform int) (Versus, error) {
-	a, err := Adapt(m, target, maxElements)
+// elements. It stops with ctx's error when ctx is done before a mesh.
+func AgainstUniform(ctx context.Context, m *fem.Model, target float64, maxElements, maxUniform int) (Versus, error) {
+	a, err := Adapt(ctx, m, target, maxElements)
 	if err != nil {
 		return Versus{}, err
 	}
@@ -218,6 +223,9 @@ func AgainstUniform(m *fem.Model, target float64, maxElements, maxUniform int) (
 		return v, err
 	}
 	uniformError := func(n int) (int, float64, error) {
+		if err := ctx.Err(); err != nil {
+			return 0, 0, err
+		}
 		um := *m
 		um.Mesh = fem.MeshSettings{Elements: n, BarOrder: m.Mesh.BarOrder}
 		s, err := fem.Solve(&um)

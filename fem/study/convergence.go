@@ -22,6 +22,7 @@
 package study
 
 import (
+	"context"
 	"fmt"
 	"math"
 
@@ -53,7 +54,8 @@ const roundOff = 1e-10
 
 // Convergence solves m with 1, 2, 4, ... up to maxPerStretch elements in
 // every stretch between key points and compares each with the exact solution.
-func Convergence(m *fem.Model, maxPerStretch int) (Table, error) {
+// It stops with ctx's error when ctx is done before a mesh.
+func Convergence(ctx context.Context, m *fem.Model, maxPerStretch int) (Table, error) {
 	if maxPerStretch < 1 {
 		return Table{}, fmt.Errorf("convergence study: the finest mesh must have at least 1 element per stretch, got %d", maxPerStretch)
 	}
@@ -63,6 +65,9 @@ func Convergence(m *fem.Model, maxPerStretch int) (Table, error) {
 	}
 	var t Table
 	for k := 1; k <= maxPerStretch; k *= 2 {
+		if err := ctx.Err(); err != nil {
+			return Table{}, err
+		}
 		s, err := solveOn(m, subdivide(keys, k))
 		if err != nil {
 			return Table{}, fmt.Errorf("convergence study, %d elements per stretch: %w", k, err)

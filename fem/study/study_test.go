@@ -1,6 +1,8 @@
 package study
 
 import (
+	"context"
+	"errors"
 	"math"
 	"testing"
 
@@ -53,7 +55,7 @@ func smoothModels() []struct {
 // from memory).
 func TestConvergenceRates(t *testing.T) {
 	for _, c := range smoothModels() {
-		table, err := Convergence(&c.model, 32)
+		table, err := Convergence(context.Background(), &c.model, 32)
 		if err != nil {
 			t.Fatalf("%s: %v", c.name, err)
 		}
@@ -81,7 +83,7 @@ func TestConvergenceRates(t *testing.T) {
 // Zhu 1992 report values approaching 1 under refinement; from memory).
 func TestEffectivityOnSmoothProblems(t *testing.T) {
 	for _, c := range smoothModels() {
-		a, err := Adapt(&c.model, 1e-3, 2000)
+		a, err := Adapt(context.Background(), &c.model, 1e-3, 2000)
 		if err != nil {
 			t.Fatalf("%s: %v", c.name, err)
 		}
@@ -110,7 +112,7 @@ func TestAdaptiveBeatsUniform(t *testing.T) {
 	m.DistributedLoad = []fem.DistributedLoad{{Direction: fem.Transverse,
 		Points: []fem.LoadPoint{{X: 6.5, Intensity: -5e3}, {X: 7.5, Intensity: -25e3}, {X: 9, Intensity: -8e3}}}}
 	const target = 2e-4
-	v, err := AgainstUniform(&m, target, 5000, 200000)
+	v, err := AgainstUniform(context.Background(), &m, target, 5000, 200000)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -131,13 +133,31 @@ func TestAdaptiveBeatsUniform(t *testing.T) {
 func TestInvalidRequests(t *testing.T) {
 	m := member(4, []fem.Support{{X: 0, Kind: fem.Fixed}})
 	m.PointLoads = []fem.PointLoad{{X: 4, Transverse: -1e3}}
-	if _, err := Convergence(&m, 0); err == nil {
+	if _, err := Convergence(context.Background(), &m, 0); err == nil {
 		t.Error("Convergence with 0 elements per stretch accepted")
 	}
-	if _, err := Adapt(&m, 0, 100); err == nil {
+	if _, err := Adapt(context.Background(), &m, 0, 100); err == nil {
 		t.Error("Adapt with target 0 accepted")
 	}
-	if _, err := Adapt(&m, 0.01, 1); err == nil {
+	if _, err := Adapt(context.Background(), &m, 0.01, 1); err == nil {
 		t.Error("Adapt with fewer elements allowed than it starts from accepted")
+	}
+}
+
+// A cancelled context stops every study before its next mesh, with the
+// context's error.
+func TestCancelled(t *testing.T) {
+	m := member(4, []fem.Support{{X: 0, Kind: fem.Fixed}})
+	m.PointLoads = []fem.PointLoad{{X: 4, Transverse: -1e3}}
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
+	if _, err := Convergence(ctx, &m, 64); !errors.Is(err, context.Canceled) {
+		t.Errorf("Convergence: %v, want %v", err, context.Canceled)
+	}
+	if a, err := Adapt(ctx, &m, 1e-6, 100000); !errors.Is(err, context.Canceled) || len(a.Iterations) != 0 {
+		t.Errorf("Adapt: %v after %d meshes, want %v before the first", err, len(a.Iterations), context.Canceled)
+	}
+	if _, err := AgainstUniform(ctx, &m, 1e-6, 100000, 100000); !errors.Is(err, context.Canceled) {
+		t.Errorf("AgainstUniform: %v, want %v", err, context.Canceled)
 	}
 }

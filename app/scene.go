@@ -1,4 +1,4 @@
-package canvas
+package app
 
 import (
 	"image"
@@ -6,23 +6,23 @@ import (
 
 	"fyne.io/fyne/v2"
 	fynecanvas "fyne.io/fyne/v2/canvas"
-	"gonum.org/v1/plot/vg"
-	"gonum.org/v1/plot/vg/vgimg"
+
+	"stave/canvas"
 )
 
-// Draw turns the scene into Fyne canvas objects placed in scene pixels: a
+// drawScene turns the scene into Fyne canvas objects placed in scene pixels: a
 // white background, one raster holding every line, polygon and circle
 // (painted by the same code as the PNG, at the screen's own pixel density)
 // and one text object per label. The number of objects is therefore 2 + the
 // number of labels, whatever the size of the mesh.
-func Draw(s *Scene) []fyne.CanvasObject {
+func drawScene(s *canvas.Scene) []fyne.CanvasObject {
 	bg := fynecanvas.NewRectangle(color.White)
 	bg.Resize(fyne.NewSize(s.Width, s.Height))
-	r := fynecanvas.NewRaster(func(w, h int) image.Image { return rasterize(s, w, h) })
+	r := fynecanvas.NewRaster(func(w, h int) image.Image { return canvas.Rasterize(s, w, h) })
 	r.Resize(fyne.NewSize(s.Width, s.Height))
 	objs := []fyne.CanvasObject{bg, r}
 	for _, it := range s.Items {
-		if it.Kind != Text {
+		if it.Kind != canvas.Text {
 			continue
 		}
 		style := fyne.TextStyle{Bold: it.Bold}
@@ -39,21 +39,9 @@ func Draw(s *Scene) []fyne.CanvasObject {
 			m = fyne.MeasureText(it.Text, size, style)
 		}
 		t.TextSize = size
-		t.Move(fyne.NewPos(it.At.X, it.At.Y+(textHeight(it.Size)-m.Height)/2))
+		t.Move(fyne.NewPos(it.At.X, it.At.Y+(canvas.TextHeight(it.Size)-m.Height)/2))
 		t.Resize(m)
 		objs = append(objs, t)
 	}
 	return objs
-}
-
-// rasterize paints the scene's shapes, without text, into a w × h image on a
-// transparent background.
-func rasterize(s *Scene, w, h int) image.Image {
-	if w <= 0 || h <= 0 || s.Width <= 0 {
-		return image.NewNRGBA(image.Rect(0, 0, 1, 1))
-	}
-	c := vgimg.NewWith(vgimg.UseWH(vg.Length(w), vg.Length(h)), vgimg.UseDPI(72), vgimg.UseBackgroundColor(color.Transparent))
-	k := float64(w) / float64(s.Width)
-	drawScene(c, s, vg.Point{Y: vg.Length(h)}, k, noText)
-	return c.Image()
 }

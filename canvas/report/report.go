@@ -1,0 +1,219 @@
+// Package report writes every product Stave makes without a window, from
+// one analysis (package fem/analysis) of a project: the drawing as PNG, SVG
+// or PDF, the one-page calculation sheet, the results table (CSV), and the
+// text and JSON of the solve and converge commands. The window's File ▸
+// Export and the command line write through it, so they cannot drift apart.
+// It imports no GUI toolkit.
+package report
+
+import (
+	"context"
+	"fmt"
+	"io"
+	"strings"
+
+	"stave/canvas"
+	"stave/fem/analysis"
+	"stave/fem/check"
+	"stave/fem/units"
+	"stave/storage"
+)
+
+// Version is the Stave release named on calculation sheets and in the
+// solve text; the binary sets it at start-up.
+var Version = "dev"
+
+// Product is one thing Export writes.
+type Product struct {
+	Name  string // as Write takes it: "png", "sheet-pdf", ...
+	Ext   string // the file extension it is written to
+	Title string // what it is, for a menu: "drawing as PNG"
+}
+
+// Products are the products of Write, in menu order.
+var Products = []Product{
+	{"png", "png", "drawing as PNG"},
+	{"svg", "svg", "drawing as SVG"},
+	{"pdf", "pdf", "drawing as PDF"},
+	{"sheet-pdf", "pdf", "calculation sheet as PDF"},
+	{"sheet-png", "png", "calculation sheet as PNG"},
+	{"csv", "csv", "results table (CSV)"},
+}
+
+// ProductExt returns the file extension of the product name, or false for
+// an unknown one.
+func ProductExt(name string) (string, bool) {
+	for _, p := range Products {
+		if p.Name == name {
+			return p.Ext, true
+		}
+	}
+	return "", false
+}
+
+func productList() string {
+	names := make([]string, len(Products))
+	for i, p := range Products {
+		names[i] = p.Name
+	}
+	return strings.Join(names, ", ")
+}
+
+// Options shape a drawing. Zero fields take the defaults.
+type Options struct {
+	// Width and Height of a drawing, in points (1/72 inch) as in the PDF and
+	// SVG files; default 1200 × 800.
+	Width, Height float32
+	// DPI is the pixel density of a PNG drawing: it has Width·DPI/72 ×
+	// Height·DPI/72 pixels, so the default 96 (a common screen density)
+	// gives 1600 × 1067 pixels for the default size. Calculation sheets keep
+	// their own A4 layout and density (canvas.WriteSheet).
+	DPI float64
+}
+
+// Defaults of Options and of the results table.
+const (
+	defaultWidth  = 1200
+	defaultHeight = 800
+	defaultDPI    = 96
+	// csvPointsPerElement is how many intervals of each element the results table samples.
+	csvPointsPerElement = 4
+)
+
+func (o Options) withDefaults() (Options, error) {
+	if o.Width < 0 || o.Height < 0 || o.DPI < 0 {
+		return o, fmt.Errorf("export size %g × %g points at %g dpi: give positive numbers (or 0 for the defaults)", o.Width, o.Height, o.DPI)
+	}
+	if o.Width == 0 {
+		o.Width = defaultWidth
+	}
+	if o.Height == 0 {
+		o.Height = defaultHeight
+	}
+	if o.DPI == 0 {
+		o.DPI = defaultDPI
+	}
+	return o, nil
+}
+
+// Source is what every product is made from: a project, an analysis of its
+// model (nil before the window has one), the findings of that analysis and
+// how the results are shown.
+type Source struct {
+	Project  *storage.Project
+	Analysis *analysis.Analysis
+	Findings []analysis.Finding
+	Units    units.System
+	// Dimensions draws the dimension lines and the scale bar, which the
+	// window can switch off; the project's overlays choose everything else.
+	Dimensions bool
+}
+
+// UnitSystem is the display unit system a project names, SI when it names none.
+func UnitSystem(u storage.UnitSystem) units.System {
+	if s, ok := units.ByName(string(u)); ok {
+		return s
+	}
+	return units.SI
+}
+
+// CheckOptions are the check limits of view v, messages in units u.
+func CheckOptions(v storage.View, u units.System) check.Options {
+	return check.Options{SpanRatio: v.DeflectionLimit, SafetyFactor: v.SafetyFactor, Units: u}
+}
+
+// Request is the analysis of p's model (a copy), on nodes when not nil,
+// with the project's check limits and its units for the messages.
+func Request(p *storage.Project, nodes []float64) analysis.Request {
+	return analysis.Request{Model: p.Model.Clone(), Nodes: nodes, Checks: CheckOptions(p.View, UnitSystem(p.View.Units))}
+}
+
+// NewSource is p with analysis a and its findings, in p's units, with
+// dimension lines.
+func NewSource(p *storage.Project, a *analysis.Analysis) Source {
+	return Source{Project: p, Analysis: a, Findings: a.Findings(), Units: UnitSystem(p.View.Units), Dimensions: true}
+}
+
+// Analyse runs the whole analysis of p; the error is ctx's when it was
+// cancelled. A model that cannot be solved is no error here: the source
+// carries why (Analysis.Err).
+func Analyse(ctx context.Context, p *storage.Project) (Source, error) {
+	a, err := analysis.Run(ctx, Request(p, nil))
+	if err != nil {
+		return Source{}, err
+	}
+	return NewSource(p, &a), nil
+}
+
+// Export analyses p (finite elements, exact solution and checks, with the
+// project's check limits) and writes one product of it to w (see Write).
+func Export(ctx context.Context, w io.Writer, p *storage.Project, product string, opts Options) error {
+	if _, ok := ProductExt(product); !ok {
+		return fmt.Errorf("cannot export %q: choose one of %s", product, productList())
+	}
+	src, err := Analyse(ctx, p)
+	if err != nil {
+		return err
+	}
+	return Write(w, src, product, opts)
+}
+
+// Input is the drawing of src: the one place where results become a
+// canvas.Input, for the window and for every export.
+func Input(src Source) canvas.Input {
+	p := src.Project
+	in := canvas.Input{Model: &p.Model, Overlays: p.View.Overlays, Dimensions: src.Dimensions,
+		Magnification: p.View.Magnification, Units: src.Units}
+	if a := src.Analysis; a != nil && len(p.Model.Segments) > 0 {
+		in.Solution, in.Exact = a.Solution, a.Exact
+		in.Problem = a.Problem()
+		in.Unreliable = analysis.Unreliable(src.Findings)
+		in.Marks = marks(src.Findings)
+	}
+	return in
+}
+
+// marks are the drawing's markers for the findings that name a point.
+func marks(fs []analysis.Finding) []canvas.Mark {
+	var out []canvas.Mark
+	for i, f := range fs {
+		if f.Marked {
+			out = append(out, canvas.Mark{X: f.At, Index: i, Severe: f.Severity == analysis.Fail})
+		}
+	}
+	return out
+}
+
+// Write writes one product of src to w, in src's units and with its
+// project's overlays: a drawing ("png", "svg", "pdf"), a calculation sheet
+// ("sheet-pdf", "sheet-png") or the results table ("csv"). A model that
+// cannot be solved still gives a drawing or sheet, with the problem written
+// on it; the results table then cannot be written and Write says why.
+func Write(w io.Writer, src Source, product string, opts Options) error {
+	opts, err := opts.withDefaults()
+	if err != nil {
+		return err
+	}
+	in := Input(src)
+	if len(src.Project.Model.Segments) == 0 {
+		return fmt.Errorf("the project has no member to export: draw one first")
+	}
+	switch product {
+	case "png", "svg", "pdf":
+		// Without the selection, the mouse position or a highlighted check.
+		return canvas.WriteImage(w, product, in, opts.Width, opts.Height, opts.DPI/72)
+	case "sheet-pdf", "sheet-png":
+		n := src.Project.Notes
+		return canvas.WriteSheet(w, strings.TrimPrefix(product, "sheet-"), canvas.SheetInput{
+			Input:  in,
+			Notes:  canvas.SheetNotes{Project: n.Project, Mark: n.Member, Engineer: n.Engineer, Date: n.Date, Version: Version},
+			Checks: analysis.Flagged(src.Findings),
+		})
+	case "csv":
+		if in.Solution == nil {
+			return fmt.Errorf("there are no results to tabulate: %s", in.Problem)
+		}
+		return canvas.WriteCSV(w, in.Solution, in.Exact, src.Units, csvPointsPerElement)
+	}
+	return fmt.Errorf("cannot export %q: choose one of %s", product, productList())
+}

@@ -1,0 +1,93 @@
+package report
+
+import (
+	"bytes"
+	"context"
+	"image/png"
+	"io"
+	"strings"
+	"testing"
+
+	"stave/fem"
+	"stave/storage"
+)
+
+func demo(t *testing.T) *storage.Project {
+	t.Helper()
+	p, err := storage.Demo()
+	if err != nil {
+		t.Fatal(err)
+	}
+	return p
+}
+
+// Every product starts the way its format requires; an unknown one is
+// refused with the list of products.
+func TestExportEveryProduct(t *testing.T) {
+	starts := map[string]string{"png": "\x89PNG", "svg": "<?xml", "pdf": "%PDF", "sheet-pdf": "%PDF", "sheet-png": "\x89PNG", "csv": "# Stave results."}
+	for _, p := range Products {
+		var buf bytes.Buffer
+		if err := Export(context.Background(), &buf, demo(t), p.Name, Options{}); err != nil {
+			t.Errorf("Export %s: %v", p.Name, err)
+		} else if !bytes.HasPrefix(buf.Bytes(), []byte(starts[p.Name])) {
+			t.Errorf("Export %s starts with %q, want %q", p.Name, buf.Bytes()[:min(buf.Len(), 8)], starts[p.Name])
+		}
+	}
+	if err := Export(context.Background(), io.Discard, demo(t), "jpeg", Options{}); err == nil || !strings.Contains(err.Error(), "sheet-png") {
+		t.Errorf("an unknown product gave %v, want an error listing the products", err)
+	}
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
+	if err := Export(ctx, io.Discard, demo(t), "png", Options{}); err != context.Canceled {
+		t.Errorf("a cancelled export gave %v, want %v", err, context.Canceled)
+	}
+}
+
+// A PNG drawing has Width·DPI/72 × Height·DPI/72 pixels.
+func TestExportPNGSize(t *testing.T) {
+	for _, c := range []struct {
+		opts          Options
+		width, height int
+	}{
+		{Options{}, 1600, 1067}, // defaults: 1200 × 800 points at 96 dpi
+		{Options{Width: 600, Height: 300, DPI: 72}, 600, 300},
+		{Options{Width: 600, Height: 300, DPI: 144}, 1200, 600},
+		{Options{Width: 400, Height: 500, DPI: 300}, 1667, 2083},
+	} {
+		var buf bytes.Buffer
+		if err := Export(context.Background(), &buf, demo(t), "png", c.opts); err != nil {
+			t.Fatalf("%+v: %v", c.opts, err)
+		}
+		cfg, err := png.DecodeConfig(&buf)
+		if err != nil {
+			t.Fatalf("%+v: %v", c.opts, err)
+		}
+		if cfg.Width != c.width || cfg.Height != c.height {
+			t.Errorf("%+v: PNG is %d × %d pixels, want %d × %d", c.opts, cfg.Width, cfg.Height, c.width, c.height)
+		}
+	}
+	if err := Export(context.Background(), io.Discard, demo(t), "png", Options{DPI: -1}); err == nil {
+		t.Error("a negative density was accepted")
+	}
+}
+
+// A member that can move still gives a drawing with the problem on it, but
+// no results table.
+func TestExportUnsolvable(t *testing.T) {
+	p, err := storage.Load("../../testdata/cantilever_tip_load.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	p.Model.Supports[0].Kind = fem.Roller
+	var svg bytes.Buffer
+	if err := Export(context.Background(), &svg, p, "svg", Options{}); err != nil {
+		t.Fatalf("drawing of a mechanism: %v", err)
+	}
+	if !strings.Contains(svg.String(), "free motion") {
+		t.Error("the drawing of a mechanism does not say \"free motion\"")
+	}
+	err = Export(context.Background(), io.Discard, p, "csv", Options{})
+	if err == nil || !strings.Contains(err.Error(), "free motion") {
+		t.Errorf("results table of a mechanism gave %v, want an error naming the free motion", err)
+	}
+}

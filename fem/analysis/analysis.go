@@ -1,0 +1,132 @@
+// Package analysis works out everything Stave reports for one model: the
+// finite element solution (on the model's own mesh or on given nodes), the
+// exact solution of the same model, the checks of package check, the
+// handbook case the model matches and the summary, and it turns them into
+// the findings every output lists. The window, the exports and the command
+// line all analyse through it, so none of them can leave a step out.
+//
+// An analysis runs in two stages: Solve gives the finite element result,
+// which is all a drawing needs, and Finish adds the exact solution and the
+// checks, which cost more; Run does both. The window shows the first stage
+// while the user drags and the second when the mouse rests.
+package analysis
+
+import (
+	"context"
+	"errors"
+	"fmt"
+
+	"stave/fem"
+	"stave/fem/check"
+)
+
+// Request is one model to analyse.
+type Request struct {
+	// Model is the model, owned by the analysis: pass a copy (fem.Model.Clone)
+	// of one that may change meanwhile.
+	Model fem.Model
+	// Nodes is a mesh to solve on (an adaptive one); nil for the model's own.
+	Nodes []float64
+	// Checks are the limits of the checks, messages in their display units.
+	Checks check.Options
+}
+
+// Analysis is what the stages found for one model.
+type Analysis struct {
+	Model fem.Model
+	Nodes []float64 // the mesh solved on; nil for the model's own
+	// Solution is the finite element solution; nil when Err says why not.
+	Solution *fem.Solution
+	Err      error
+	// Exact is the exact solution; nil when ExactErr says why not, or before
+	// Finish.
+	Exact    *fem.Exact
+	ExactErr error
+	Checks   []check.Result // nil when there is no solution
+	Handbook *check.Case    // the handbook case the model matches, if any
+	// Complete says Finish has run to its end.
+	Complete bool
+}
+
+// Solve is the first stage: r's model solved by finite elements, on r's
+// nodes when given. It returns ctx's error, and no analysis, when ctx is
+// done before it starts; once started the solve runs to its end.
+func Solve(ctx context.Context, r Request) (Analysis, error) {
+	if err := ctx.Err(); err != nil {
+		return Analysis{}, err
+	}
+	a := Analysis{Model: r.Model, Nodes: r.Nodes}
+	if len(r.Model.Segments) == 0 {
+		a.Err = errors.New("no member yet: drag along the drawing with the Member tool, or type a length")
+		return a, nil
+	}
+	if r.Nodes == nil {
+		a.Solution, a.Err = fem.Solve(&a.Model)
+		return a, nil
+	}
+	mesh, err := fem.MeshFromNodes(&a.Model, r.Nodes)
+	if err != nil {
+		a.Err = fmt.Errorf("the refined mesh does not fit the model: %w", err)
+		return a, nil
+	}
+	a.Solution, a.Err = fem.SolveOnMesh(&a.Model, mesh)
+	return a, nil
+}
+
+// Finish is the second stage: a copy of a, the first stage of r, with the
+// exact solution, the checks and the handbook case. It leaves a itself
+// alone, since a window may be showing it. When ctx is done between its
+// steps it returns ctx's error.
+func Finish(ctx context.Context, r Request, a Analysis) (Analysis, error) {
+	if len(a.Model.Segments) == 0 {
+		a.Complete = true
+		return a, nil
+	}
+	if err := ctx.Err(); err != nil {
+		return a, err
+	}
+	a.Exact, a.ExactErr = fem.SolveExact(&a.Model)
+	if err := ctx.Err(); err != nil {
+		return a, err
+	}
+	if a.Solution != nil {
+		a.Checks = check.Run(&a.Model, a.Solution, a.Exact, r.Checks)
+	}
+	if c, ok := check.Handbook(&a.Model); ok {
+		a.Handbook = &c
+	}
+	a.Complete = true
+	return a, nil
+}
+
+// Run runs both stages.
+func Run(ctx context.Context, r Request) (Analysis, error) {
+	a, err := Solve(ctx, r)
+	if err != nil {
+		return a, err
+	}
+	return Finish(ctx, r, a)
+}
+
+// Problem is the one-line summary of why there are no results; "" when
+// there are.
+func (a *Analysis) Problem() string {
+	if a.Err == nil {
+		return ""
+	}
+	var mech *fem.MechanismError
+	if errors.As(a.Err, &mech) {
+		return fmt.Sprintf("free motion: %v", a.Err)
+	}
+	return a.Err.Error()
+}
+
+// Summary is fem.Summarize of the solution against the exact one, with a
+// warning when the exact solution is missing; a must have a Solution.
+func (a *Analysis) Summary() fem.Summary {
+	sum := fem.Summarize(a.Solution, a.Exact)
+	if a.Exact == nil {
+		sum.Warnings = append(sum.Warnings, "the exact solution is not available for this model, so the error against it is not reported")
+	}
+	return sum
+}

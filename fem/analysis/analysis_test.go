@@ -1,0 +1,154 @@
+package analysis
+
+import (
+	"context"
+	"errors"
+	"math"
+	"strings"
+	"testing"
+
+	"stave/fem"
+	"stave/fem/check"
+	"stave/fem/units"
+	"stave/storage"
+)
+
+func load(t *testing.T, name string) fem.Model {
+	t.Helper()
+	p, err := storage.Load("../../testdata/" + name)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return p.Model
+}
+
+// A cantilever of the shipped test data through both stages: the solution,
+// the exact solution, the checks and the handbook case, the tip deflection
+// of each equal to the handbook's P·L³/(3·E·I).
+func TestRunCantilever(t *testing.T) {
+	m := load(t, "cantilever_tip_load.json")
+	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if a.Solution == nil || a.Exact == nil || !a.Complete || len(a.Checks) == 0 || a.Handbook == nil {
+		t.Fatalf("incomplete analysis: solution %v, exact %v (%v), complete %v, %d checks, handbook %v",
+			a.Solution != nil, a.Exact != nil, a.ExactErr, a.Complete, len(a.Checks), a.Handbook != nil)
+	}
+	// Cantilever, L = 4 m, tip force P = 10 kN down, E = 200 GPa, I = 8e-6 m⁴:
+	// tip deflection P·L³/(3·E·I) = 0.1333 m down.
+	// Source: Gere & Goodno, Mechanics of Materials, Appendix D (cantilever beams), from memory.
+	const P, L, E, I = 10e3, 4.0, 200e9, 8e-6
+	want := -P * L * L * L / (3 * E * I)
+	for name, w := range map[string]float64{
+		"finite element": a.Solution.At(L, fem.Left).Deflection,
+		"exact":          a.Exact.At(L, fem.Left).Deflection,
+	} {
+		if math.Abs(w-want) > 1e-9*math.Abs(want) {
+			t.Errorf("%s tip deflection %g, want %g", name, w, want)
+		}
+	}
+	if !strings.Contains(a.HandbookText(units.SI), "Cantilever") {
+		t.Errorf("handbook text %q does not name the case", a.HandbookText(units.SI))
+	}
+	if a.Problem() != "" || Unreliable(a.Findings()) {
+		t.Errorf("a sound cantilever is reported as a problem (%q) or unreliable", a.Problem())
+	}
+}
+
+func TestFindings(t *testing.T) {
+	free := load(t, "cantilever_tip_load.json")
+	free.Supports[0].Kind = fem.Roller
+	cases := []struct {
+		name      string
+		model     fem.Model
+		firstOnly bool // Solve without Finish
+		severity  Severity
+		status    string // status of the first finding
+		nameHas   string // in the first finding's name
+		doubtful  bool
+	}{
+		{"no member", fem.Model{}, false, Fail, "FAIL", "no results", true},
+		{"free motion", free, false, Fail, "FAIL", "free motion", true},
+		{"first stage only", load(t, "cantilever_tip_load.json"), true, Pending, "…", "exact solution and checks follow", false},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			r := Request{Model: c.model, Checks: check.DefaultOptions()}
+			a, err := Solve(context.Background(), r)
+			if err == nil && !c.firstOnly {
+				a, err = Finish(context.Background(), r, a)
+			}
+			if err != nil {
+				t.Fatal(err)
+			}
+			fs := a.Findings()
+			if len(fs) == 0 {
+				t.Fatal("no findings")
+			}
+			f := fs[0]
+			if f.Severity != c.severity || f.Status != c.status || !strings.Contains(f.Name, c.nameHas) {
+				t.Errorf("first finding %v %q %q, want %v %q with %q", f.Severity, f.Status, f.Name, c.severity, c.status, c.nameHas)
+			}
+			if Unreliable(fs) != c.doubtful {
+				t.Errorf("unreliable = %v, want %v", Unreliable(fs), c.doubtful)
+			}
+		})
+	}
+}
+
+// Design checks that pass say "within limit", never "ok": a finding about
+// the member, not an approval; failures come before passes.
+func TestCheckFindingsWords(t *testing.T) {
+	a := Analysis{Model: load(t, "cantilever_tip_load.json"), Checks: []check.Result{
+		{Kind: check.Design, Status: check.Pass, Name: "deflection"},
+		{Kind: check.Verification, Status: check.Pass, Name: "equilibrium"},
+		{Kind: check.Design, Status: check.Fail, Name: "stress", X: 1},
+		{Kind: check.Verification, Status: check.Info, Name: "error"},
+	}}
+	got := a.checkFindings()
+	want := []struct {
+		status string
+		marked bool
+	}{{"FAIL", true}, {"note", false}, {"within limit", false}, {"ok", false}}
+	for i, w := range want {
+		if got[i].Status != w.status || got[i].Marked != w.marked {
+			t.Errorf("finding %d (%s) is %q marked %v, want %q marked %v", i, got[i].Name, got[i].Status, got[i].Marked, w.status, w.marked)
+		}
+	}
+	if got[0].Span == [2]float64{} {
+		t.Error("a failed check at a point has no span to highlight")
+	}
+}
+
+func TestFlagged(t *testing.T) {
+	fs := []Finding{
+		finding(Caution, "material", "odd"),
+		finding(OK, "equilibrium", "fine"),
+		finding(Fail, "stress", "too high"),
+		finding(Note, "exact", "none"),
+	}
+	got := Flagged(fs)
+	want := []string{"FAIL — stress: too high", "caution — material: odd"}
+	if strings.Join(got, "\n") != strings.Join(want, "\n") {
+		t.Errorf("flagged %q, want %q", got, want)
+	}
+}
+
+// A cancelled context stops an analysis before each stage.
+func TestCancelled(t *testing.T) {
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
+	r := Request{Model: load(t, "cantilever_tip_load.json")}
+	if _, err := Solve(ctx, r); !errors.Is(err, context.Canceled) {
+		t.Errorf("Solve on a cancelled context: %v", err)
+	}
+	first, err := Solve(context.Background(), r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	a, err := Finish(ctx, r, first)
+	if !errors.Is(err, context.Canceled) || a.Complete || a.Exact != nil {
+		t.Errorf("Finish on a cancelled context: err %v, complete %v, exact %v", err, a.Complete, a.Exact != nil)
+	}
+}
