@@ -10,9 +10,14 @@ import (
 )
 
 // Load reads the project file at path. On any problem it returns nil and an
-// error; problems with the content come as a *LoadError naming the file.
+// error; problems with the content, and a file larger than MaxFileSize, come
+// as a *LoadError naming the file.
 func Load(path string) (*Project, error) {
-	data, err := os.ReadFile(path)
+	data, err := readLimited(path)
+	var tooLarge sizeError
+	if errors.As(err, &tooLarge) {
+		return nil, &LoadError{File: path, Problems: []Problem{tooLarge.problem()}}
+	}
 	if err != nil {
 		return nil, fmt.Errorf("cannot open %s: %w", path, err)
 	}
