@@ -22,7 +22,10 @@
 //     before a save.
 //   - Save writes atomically: a temporary file in the same folder, synced,
 //     then the previous file kept as NAME.bak and the new one renamed into
-//     place. A failure at any step leaves the previous file as it was.
+//     place. A failure at any step, or a kill between two, leaves the
+//     previous file as it was and a backup in place. Saving through a
+//     symbolic link replaces the file it points to; temporary files that
+//     killed saves left behind are removed by later saves.
 //   - WriteRecovery, FindRecovery and ClearRecovery keep an autosaved copy of
 //     unsaved work in a folder chosen by the application.
 //
