@@ -156,10 +156,16 @@ func followLinks(path string) (string, error) {
 // a backup at every instant. Where links are not possible it copies the
 // file instead, just as atomically.
 func keepBackup(path string) error {
-	if _, err := os.Lstat(path); errors.Is(err, fs.ErrNotExist) {
+	current, err := os.Lstat(path)
+	if errors.Is(err, fs.ErrNotExist) {
 		return nil // a new file has nothing to keep
 	}
 	bak := BackupPath(path)
+	if kept, err := os.Lstat(bak); err == nil && os.SameFile(current, kept) {
+		// A save stopped after keeping the backup. Renaming another link of
+		// the same file over it would do nothing and leave the link behind.
+		return nil
+	}
 	dir, base := filepath.Dir(bak), filepath.Base(bak)
 	removeStaleTemporaries(dir, base)
 	link, err := newTemporary(dir, base, func(name string) error { return os.Link(path, name) })

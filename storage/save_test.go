@@ -424,3 +424,22 @@ func TestKilledSavesLoseNothing(t *testing.T) {
 		t.Errorf("after a save by a live process the folder holds %v, want only the file and its backup", got)
 	}
 }
+
+// When the backup is already the file itself (a save stopped after keeping
+// it), the next save leaves no temporary link behind: renaming one hard
+// link over another of the same file does nothing.
+func TestSaveWhenTheBackupIsTheFileItself(t *testing.T) {
+	dir := t.TempDir()
+	path := filepath.Join(dir, "joist.json")
+	saveAs(t, path, "before")
+	if err := os.Link(path, BackupPath(path)); err != nil {
+		t.Skip("no hard links here:", err)
+	}
+	saveAs(t, path, "after")
+	if got := listDir(t, dir); !reflect.DeepEqual(got, []string{"joist.json", "joist.json.bak"}) {
+		t.Errorf("the folder holds %v, want only the file and its backup", got)
+	}
+	if got := engineerIn(t, BackupPath(path)); got != "before" {
+		t.Errorf("the backup holds %q, want the previous version", got)
+	}
+}
