@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"fmt"
 	"io"
+	"io/fs"
 	"os"
 )
 
@@ -33,8 +34,16 @@ func describeSize(n int64) string {
 
 // readLimited reads the file at path, or returns a sizeError without reading
 // it when it is larger than MaxFileSize. The read itself stops one byte past
-// the limit, for files that grow or do not tell their size.
+// the limit, for files that grow or do not tell their size. Folders, pipes
+// and devices are refused before opening: reading one may never end.
 func readLimited(path string) ([]byte, error) {
+	info, err := os.Stat(path)
+	if err != nil {
+		return nil, err
+	}
+	if !info.Mode().IsRegular() {
+		return nil, fmt.Errorf("it is %s, not a file; choose a project file", describeKind(info.Mode()))
+	}
 	f, err := os.Open(path)
 	if err != nil {
 		return nil, err
@@ -51,6 +60,20 @@ func readLimited(path string) ([]byte, error) {
 		return nil, sizeError{int64(len(data))}
 	}
 	return data, nil
+}
+
+func describeKind(mode fs.FileMode) string {
+	switch {
+	case mode.IsDir():
+		return "a folder"
+	case mode&fs.ModeNamedPipe != 0:
+		return "a named pipe"
+	case mode&fs.ModeSocket != 0:
+		return "a socket"
+	case mode&fs.ModeDevice != 0:
+		return "a device"
+	}
+	return "something other than a file"
 }
 
 // utf8BOM is the byte-order mark some editors put at the start of UTF-8
