@@ -141,7 +141,7 @@ func checkVersion(top *node) (Problem, bool) {
 	if format.kind != stringNode || format.text != FormatName {
 		shown := format.describe()
 		if format.kind == stringNode {
-			shown = strconv.Quote(format.text)
+			shown = strconv.Quote(cut(format.text))
 		}
 		return Problem{Path: "format", Message: fmt.Sprintf("is %s, so this is not a Stave project file (expected %q); open a file saved by Stave", shown, FormatName)}, false
 	}
@@ -154,9 +154,9 @@ func checkVersion(top *node) (Problem, bool) {
 	case version.kind != numberNode || err != nil && !math.IsInf(v, 0) || v != math.Trunc(v):
 		return Problem{Path: "version", Message: fmt.Sprintf("must be a whole number such as %d", Version)}, false
 	case v > Version:
-		return Problem{Path: "version", Message: fmt.Sprintf("this file was written by a newer Stave (format version %s); this version reads up to %d — update Stave", version.text, Version)}, false
+		return Problem{Path: "version", Message: fmt.Sprintf("this file was written by a newer Stave (format version %s); this version reads up to %d — update Stave", cut(version.text), Version)}, false
 	case v < 0:
-		return Problem{Path: "version", Message: fmt.Sprintf("%s is not a format version (they count up from 1); open a file saved by Stave", version.text)}, false
+		return Problem{Path: "version", Message: fmt.Sprintf("%s is not a format version (they count up from 1); open a file saved by Stave", cut(version.text))}, false
 	}
 	if err := migrate(top, int(v), Version, migrations); err != nil {
 		return Problem{Path: "version", Message: err.Error()}, false
@@ -250,7 +250,7 @@ func (f *fields) finish() {
 	}
 	for _, k := range f.n.keys {
 		if !contains(f.known, k) {
-			f.r.add(join(f.path, k), "unknown key; remove it or correct its spelling (keys allowed here: %s)", strings.Join(f.known, ", "))
+			f.r.add(join(f.path, cut(k)), "unknown key; remove it or correct its spelling (keys allowed here: %s)", strings.Join(f.known, ", "))
 		}
 	}
 }
@@ -280,7 +280,7 @@ func (r *reader) number(path string, v *node, unit string) float64 {
 	}
 	x, err := strconv.ParseFloat(v.text, 64)
 	if err != nil || math.IsInf(x, 0) {
-		r.add(path, "%s is too large for a number; enter a value in %s", v.text, unit)
+		r.add(path, "%s is too large for a number; enter a value in %s", cut(v.text), unit)
 		return 0
 	}
 	return x
@@ -299,10 +299,10 @@ func (f *fields) count(key string, required bool) int {
 	x := f.r.number(path, v, "a count")
 	switch {
 	case math.Abs(x) > maxCount:
-		f.r.add(path, "%s is too large; a count in a file may be at most %d, enter a smaller whole number", v.text, maxCount)
+		f.r.add(path, "%s is too large; a count in a file may be at most %d, enter a smaller whole number", cut(v.text), maxCount)
 		return 0
 	case x != math.Trunc(x):
-		f.r.add(path, "%s is not a whole number; enter one such as 10", v.text)
+		f.r.add(path, "%s is not a whole number; enter one such as 10", cut(v.text))
 		return 0
 	}
 	return int(x)
@@ -421,7 +421,7 @@ func (r *reader) units(f *fields) {
 		case v.kind != stringNode:
 			r.add(join(f.path, u.Quantity), "expected the unit %q in quotes, found %s", u.Unit, v.describe())
 		case v.text != u.Unit:
-			r.add(join(f.path, u.Quantity), "declares %q, but Stave files hold SI base units only; convert the values to %s and declare %q", v.text, u.Unit, u.Unit)
+			r.add(join(f.path, u.Quantity), "declares %q, but Stave files hold SI base units only; convert the values to %s and declare %q", cut(v.text), u.Unit, u.Unit)
 		}
 	}
 	f.finish()
@@ -457,7 +457,7 @@ func (r *reader) support(f *fields) fem.Support {
 	name := f.text("kind", true, `"kind": one of `+supportKindList)
 	kind, known := fem.ParseSupportKind(name)
 	if !known && f.holds("kind", stringNode) {
-		r.add(kindPath, "%q is not a support kind; use %s", name, supportKindList)
+		r.add(kindPath, "%q is not a support kind; use %s", cut(name), supportKindList)
 	}
 	s.Kind = kind
 	stiffness := f.object("stiffness", known && kind == fem.Spring, `"stiffness": {"axial", "transverse", "rotation"} in N/m, N/m and N·m/rad`)
@@ -499,7 +499,7 @@ func (r *reader) load(p *Project, f *fields) {
 		p.Model.DistributedLoad = append(p.Model.DistributedLoad, r.distributed(f))
 	default:
 		if f.holds("kind", stringNode) {
-			r.add(join(f.path, "kind"), "%q is not a load kind; use \"point\" or \"distributed\"", kind)
+			r.add(join(f.path, "kind"), "%q is not a load kind; use \"point\" or \"distributed\"", cut(kind))
 		}
 		return // the other keys depend on the kind
 	}
@@ -516,7 +516,7 @@ func (r *reader) distributed(f *fields) fem.DistributedLoad {
 		l.Direction = fem.Transverse
 	case "":
 	default:
-		r.add(directionPath, "%q is not a load direction; use \"axial\" or \"transverse\"", d)
+		r.add(directionPath, "%q is not a load direction; use \"axial\" or \"transverse\"", cut(d))
 	}
 	items, paths := f.list("points", true, `"points": [[x, intensity], ...] with x in m and intensity in N/m`)
 	for i, item := range items {

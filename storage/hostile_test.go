@@ -301,3 +301,40 @@ func TestFindRecoveryRefusesLargeFiles(t *testing.T) {
 		})
 	}
 }
+
+// Texts of the file that a message repeats are cut short, so that a message
+// stays readable whatever the file holds.
+func TestDecodeCutsLongTextsInMessages(t *testing.T) {
+	demo := readDemo(t)
+	long := strings.Repeat("z", 100_000)
+	tests := []struct{ name, old, new, path string }{
+		{"format", `"format": "stave-member"`, `"format": "` + long + `"`, "format"},
+		{"version", `"version": 1`, `"version": 1` + strings.Repeat("0", 100_000), "version"},
+		{"unit", `"length": "m"`, `"length": "` + long + `"`, "units.length"},
+		{"support kind", `"kind": "pinned"`, `"kind": "` + long + `"`, "supports[0].kind"},
+		{"load kind", `"kind": "point"`, `"kind": "` + long + `"`, "loads[0].kind"},
+		{"load direction", `"direction": "transverse"`, `"direction": "` + long + `"`, "loads[1].direction"},
+		{"number", `"x": 4.2,`, `"x": 1` + strings.Repeat("0", 100_000) + `e999,`, "loads[0].x"},
+		{"count", `"elements": 22,`, `"elements": 0.` + strings.Repeat("5", 100_000) + `,`, "mesh.elements"},
+		{"unknown key", `"mesh": {`, `"` + long + `": 1, "mesh": {`, strings.Repeat("z", 40) + "… (100000 bytes in all)"},
+		{"duplicate key", `"mesh": {`, `"` + long + `": 1, "` + long + `": 1, "mesh": {`, ""},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			if !strings.Contains(demo, tt.old) {
+				t.Fatalf("the demo file has no %q to edit", tt.old)
+			}
+			problems := refusal(t, []byte(strings.Replace(demo, tt.old, tt.new, 1)))
+			found := false
+			for _, q := range problems {
+				if len(q.String()) > 500 {
+					t.Errorf("a message of %d bytes: %.200s…", len(q.String()), q)
+				}
+				found = found || q.Path == tt.path && strings.Contains(q.String(), "… (1000")
+			}
+			if !found {
+				t.Errorf("no problem at %q shows the text cut short: %v", tt.path, problems)
+			}
+		})
+	}
+}

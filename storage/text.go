@@ -87,6 +87,20 @@ func textFault(s string, notes bool) string {
 	return ""
 }
 
+// cut shortens a text of the file for a message, so that a hostile file
+// cannot make a message of megabytes.
+func cut(s string) string {
+	const most = 40 // characters
+	count := 0
+	for i := range s {
+		if count == most {
+			return fmt.Sprintf("%s… (%d bytes in all)", s[:i], len(s))
+		}
+		count++
+	}
+	return s
+}
+
 // checkTexts finds the texts of p that a file must not hold, with their
 // paths in the file.
 func checkTexts(p *Project) []Problem {

@@ -159,7 +159,7 @@ func (p *treeParser) object(depth int) (*node, error) {
 		}
 		key := tok.(string) // the decoder only yields string keys inside an object
 		if _, dup := n.fields[key]; dup {
-			return nil, fmt.Errorf("%s: the key %q appears twice in one object; keep one", p.position(p.dec.InputOffset()), key)
+			return nil, fmt.Errorf("%s: the key %q appears twice in one object; keep one", p.position(p.dec.InputOffset()), cut(key))
 		}
 		value, err := p.value(depth)
 		if err != nil {
