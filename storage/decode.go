@@ -1,6 +1,7 @@
 package storage
 
 import (
+	"bytes"
 	"fmt"
 	"math"
 	"strconv"
@@ -54,17 +55,26 @@ func listProblems(problems []Problem) string {
 // a *LoadError listing all problems found, so an open project is never
 // replaced by a half-read one.
 func Unmarshal(data []byte) (*Project, error) {
-	top, err := parseTree(data)
+	refuse := func(problem Problem) error {
+		return &LoadError{Problems: []Problem{problem}}
+	}
+	if len(data) > MaxFileSize {
+		return nil, refuse(sizeError{int64(len(data))}.problem())
+	}
+	if encoding := textEncoding(data); encoding != "" {
+		return nil, refuse(Problem{Message: fmt.Sprintf("line 1, column 1: this file is %s text; save it as UTF-8 (in most editors: Save As, encoding UTF-8) and open it again", encoding)})
+	}
+	top, err := parseTree(bytes.TrimPrefix(data, utf8BOM))
 	if err != nil {
-		return nil, &LoadError{Problems: []Problem{{Message: err.Error()}}}
+		return nil, refuse(Problem{Message: err.Error()})
 	}
 	if problem, ok := checkVersion(top); !ok {
-		return nil, &LoadError{Problems: []Problem{problem}}
+		return nil, refuse(problem)
 	}
 	var r reader
 	p := r.project(r.object("", top))
 	problems := r.problems
-	for _, q := range check(p) {
+	for _, q := range append(check(p), checkTexts(p)...) {
 		if !overlapsAny(q.Path, r.problems) {
 			problems = append(problems, q)
 		}
@@ -79,7 +89,11 @@ func Unmarshal(data []byte) (*Project, error) {
 // application can warn before saving a file that would not open again.
 // It returns nil or a *LoadError.
 func Validate(p *Project) error {
-	if problems := check(p); len(problems) > 0 {
+	problems := append(check(p), checkTexts(p)...)
+	if data, err := Marshal(p); err == nil && len(data) > MaxFileSize {
+		problems = append(problems, Problem{Message: fmt.Sprintf("the file would be %s, more than the %s a project file may be; remove loads or load points, or shorten the notes", describeSize(int64(len(data))), describeSize(MaxFileSize))})
+	}
+	if len(problems) > 0 {
 		return &LoadError{Problems: problems}
 	}
 	return nil
@@ -127,7 +141,7 @@ func checkVersion(top *node) (Problem, bool) {
 	if format.kind != stringNode || format.text != FormatName {
 		shown := format.describe()
 		if format.kind == stringNode {
-			shown = strconv.Quote(format.text)
+			shown = strconv.Quote(cut(format.text))
 		}
 		return Problem{Path: "format", Message: fmt.Sprintf("is %s, so this is not a Stave project file (expected %q); open a file saved by Stave", shown, FormatName)}, false
 	}
@@ -135,14 +149,16 @@ func checkVersion(top *node) (Problem, bool) {
 	if version == nil {
 		return Problem{Path: "version", Message: fmt.Sprintf("missing; add \"version\": %d after \"format\"", Version)}, false
 	}
-	v, err := strconv.Atoi(version.text)
-	if version.kind != numberNode || err != nil {
+	v, err := strconv.ParseFloat(version.text, 64) // too large for a float64 gives ±Inf, still a whole number
+	switch {
+	case version.kind != numberNode || err != nil && !math.IsInf(v, 0) || v != math.Trunc(v):
 		return Problem{Path: "version", Message: fmt.Sprintf("must be a whole number such as %d", Version)}, false
+	case v > Version:
+		return Problem{Path: "version", Message: fmt.Sprintf("this file was written by a newer Stave (format version %s); this version reads up to %d — update Stave", cut(version.text), Version)}, false
+	case v < 0:
+		return Problem{Path: "version", Message: fmt.Sprintf("%s is not a format version (they count up from 1); open a file saved by Stave", cut(version.text))}, false
 	}
-	if v > Version {
-		return Problem{Path: "version", Message: fmt.Sprintf("this file was written by a newer Stave (format version %d); this version reads up to %d — update Stave", v, Version)}, false
-	}
-	if err := migrate(top, v, Version, migrations); err != nil {
+	if err := migrate(top, int(v), Version, migrations); err != nil {
 		return Problem{Path: "version", Message: err.Error()}, false
 	}
 	return Problem{}, true
@@ -234,7 +250,7 @@ func (f *fields) finish() {
 	}
 	for _, k := range f.n.keys {
 		if !contains(f.known, k) {
-			f.r.add(join(f.path, k), "unknown key; remove it or correct its spelling (keys allowed here: %s)", strings.Join(f.known, ", "))
+			f.r.add(join(f.path, cut(k)), "unknown key; remove it or correct its spelling (keys allowed here: %s)", strings.Join(f.known, ", "))
 		}
 	}
 }
@@ -264,11 +280,14 @@ func (r *reader) number(path string, v *node, unit string) float64 {
 	}
 	x, err := strconv.ParseFloat(v.text, 64)
 	if err != nil || math.IsInf(x, 0) {
-		r.add(path, "%s is too large for a number; enter a value in %s", v.text, unit)
+		r.add(path, "%s is too large for a number; enter a value in %s", cut(v.text), unit)
 		return 0
 	}
 	return x
 }
+
+// maxCount bounds the whole numbers of a file, so they fit an int anywhere.
+const maxCount = 1_000_000_000
 
 // count reads a whole number.
 func (f *fields) count(key string, required bool) int {
@@ -278,8 +297,12 @@ func (f *fields) count(key string, required bool) int {
 		return 0
 	}
 	x := f.r.number(path, v, "a count")
-	if x != math.Trunc(x) || math.Abs(x) > 1e9 {
-		f.r.add(path, "%s is not a whole number; enter one such as 10", v.text)
+	switch {
+	case math.Abs(x) > maxCount:
+		f.r.add(path, "%s is too large; a count in a file may be at most %d, enter a smaller whole number", cut(v.text), maxCount)
+		return 0
+	case x != math.Trunc(x):
+		f.r.add(path, "%s is not a whole number; enter one such as 10", cut(v.text))
 		return 0
 	}
 	return int(x)
@@ -293,6 +316,10 @@ func (f *fields) text(key string, required bool, hint string) string {
 	}
 	if v.kind != stringNode {
 		f.r.add(join(f.path, key), "expected text in quotes, found %s", v.describe())
+		return ""
+	}
+	if v.damaged {
+		f.r.add(join(f.path, key), "holds bytes that are not UTF-8 text (or half of a \\u surrogate pair); retype the text and save the file as UTF-8")
 		return ""
 	}
 	return v.text
@@ -394,7 +421,7 @@ func (r *reader) units(f *fields) {
 		case v.kind != stringNode:
 			r.add(join(f.path, u.Quantity), "expected the unit %q in quotes, found %s", u.Unit, v.describe())
 		case v.text != u.Unit:
-			r.add(join(f.path, u.Quantity), "declares %q, but Stave files hold SI base units only; convert the values to %s and declare %q", v.text, u.Unit, u.Unit)
+			r.add(join(f.path, u.Quantity), "declares %q, but Stave files hold SI base units only; convert the values to %s and declare %q", cut(v.text), u.Unit, u.Unit)
 		}
 	}
 	f.finish()
@@ -430,7 +457,7 @@ func (r *reader) support(f *fields) fem.Support {
 	name := f.text("kind", true, `"kind": one of `+supportKindList)
 	kind, known := fem.ParseSupportKind(name)
 	if !known && f.holds("kind", stringNode) {
-		r.add(kindPath, "%q is not a support kind; use %s", name, supportKindList)
+		r.add(kindPath, "%q is not a support kind; use %s", cut(name), supportKindList)
 	}
 	s.Kind = kind
 	stiffness := f.object("stiffness", known && kind == fem.Spring, `"stiffness": {"axial", "transverse", "rotation"} in N/m, N/m and N·m/rad`)
@@ -472,7 +499,7 @@ func (r *reader) load(p *Project, f *fields) {
 		p.Model.DistributedLoad = append(p.Model.DistributedLoad, r.distributed(f))
 	default:
 		if f.holds("kind", stringNode) {
-			r.add(join(f.path, "kind"), "%q is not a load kind; use \"point\" or \"distributed\"", kind)
+			r.add(join(f.path, "kind"), "%q is not a load kind; use \"point\" or \"distributed\"", cut(kind))
 		}
 		return // the other keys depend on the kind
 	}
@@ -489,7 +516,7 @@ func (r *reader) distributed(f *fields) fem.DistributedLoad {
 		l.Direction = fem.Transverse
 	case "":
 	default:
-		r.add(directionPath, "%q is not a load direction; use \"axial\" or \"transverse\"", d)
+		r.add(directionPath, "%q is not a load direction; use \"axial\" or \"transverse\"", cut(d))
 	}
 	items, paths := f.list("points", true, `"points": [[x, intensity], ...] with x in m and intensity in N/m`)
 	for i, item := range items {

@@ -15,11 +15,17 @@
 //     problems), migrates files of older format versions, refuses newer ones,
 //     and checks the whole model. It reports every problem at once in a
 //     *LoadError whose entries name the place in the file ("loads[3].points[1]").
-//     A failed read returns no Project. Validate runs the same checks on a
-//     Project in memory, so the application can warn before a save.
+//     A failed read returns no Project. Files beyond the limits of
+//     docs/format.md (size, nesting, encoding, texts) are refused the same
+//     way, before they can take the memory or the stack. Validate runs the
+//     same checks on a Project in memory, so the application can warn
+//     before a save.
 //   - Save writes atomically: a temporary file in the same folder, synced,
 //     then the previous file kept as NAME.bak and the new one renamed into
-//     place. A failure at any step leaves the previous file as it was.
+//     place. A failure at any step, or a kill between two, leaves the
+//     previous file as it was and a backup in place. Saving through a
+//     symbolic link replaces the file it points to; temporary files that
+//     killed saves left behind are removed by later saves.
 //   - WriteRecovery, FindRecovery and ClearRecovery keep an autosaved copy of
 //     unsaved work in a folder chosen by the application.
 //

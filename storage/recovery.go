@@ -71,11 +71,14 @@ func WriteRecovery(dir string, p *Project, source string) error {
 // removes it.
 func FindRecovery(dir string) (*Recovery, error) {
 	path := RecoveryPath(dir)
-	data, err := os.ReadFile(path)
-	if errors.Is(err, os.ErrNotExist) {
+	data, err := readLimited(path)
+	var tooLarge sizeError
+	switch {
+	case errors.Is(err, os.ErrNotExist):
 		return nil, nil
-	}
-	if err != nil {
+	case errors.As(err, &tooLarge):
+		return nil, fmt.Errorf("the autosave %s cannot be recovered: %w", path, err)
+	case err != nil:
 		return nil, fmt.Errorf("cannot read the autosave %s: %w", path, err)
 	}
 	var f recoveryFile

@@ -12,12 +12,15 @@ import (
 // straight into structs so that it can report every problem at once, each
 // with its path, rather than stopping at the first.
 type node struct {
-	kind   nodeKind
-	text   string // a string's value or a number's literal text
-	truth  bool
-	items  []*node          // array elements
-	keys   []string         // object keys in file order
-	fields map[string]*node // object members
+	kind  nodeKind
+	text  string // a string's value or a number's literal text
+	truth bool
+	// damaged marks a string whose literal held bytes that are not UTF-8 or
+	// half of a surrogate pair; the decoder replaced them by U+FFFD.
+	damaged bool
+	items   []*node          // array elements
+	keys    []string         // object keys in file order
+	fields  map[string]*node // object members
 }
 
 type nodeKind int
@@ -47,13 +50,18 @@ func (n *node) describe() string {
 	return "null"
 }
 
+// maxDepth is how deeply a file may nest lists and objects. A project nests
+// them 5 deep (loads[i].points[j][0]); the bound keeps the recursion below
+// far from the end of the stack, whose overflow is fatal, not a panic.
+const maxDepth = 64
+
 // parseTree reads one JSON value and nothing after it. Its errors name the
 // line and column.
 func parseTree(data []byte) (*node, error) {
 	dec := json.NewDecoder(bytes.NewReader(data))
 	dec.UseNumber()
 	p := treeParser{dec: dec, data: data}
-	top, err := p.value()
+	top, err := p.value(0)
 	if err != nil {
 		return nil, err
 	}
@@ -86,8 +94,23 @@ func (p *treeParser) fail(err error) error {
 	return fmt.Errorf("%s: %v", p.position(p.dec.InputOffset()), err)
 }
 
-func (p *treeParser) value() (*node, error) {
-	tok, err := p.dec.Token()
+// token reads the next token. For a string it also reports whether its
+// literal in the file was damaged (see node.damaged).
+func (p *treeParser) token() (tok json.Token, damaged bool, err error) {
+	start := p.dec.InputOffset()
+	tok, err = p.dec.Token()
+	if _, ok := tok.(string); ok && err == nil {
+		// The bytes read hold separators and spaces, then the quoted literal.
+		read := p.data[start:p.dec.InputOffset()]
+		literal := read[bytes.IndexByte(read, '"')+1 : len(read)-1]
+		damaged = !literalIntact(literal)
+	}
+	return tok, damaged, err
+}
+
+// value reads one value that lies inside depth lists and objects.
+func (p *treeParser) value(depth int) (*node, error) {
+	tok, damaged, err := p.token()
 	if err != nil {
 		return nil, p.fail(err)
 	}
@@ -99,20 +122,23 @@ func (p *treeParser) value() (*node, error) {
 	case json.Number:
 		return &node{kind: numberNode, text: string(t)}, nil
 	case string:
-		return &node{kind: stringNode, text: t}, nil
+		return &node{kind: stringNode, text: t, damaged: damaged}, nil
 	case json.Delim:
-		if t == '[' {
-			return p.array()
+		if depth == maxDepth {
+			return nil, fmt.Errorf("%s: lists and objects are nested more than %d deep here (a Stave project nests them 5 deep), so this is not a Stave project file or it is damaged; open a file saved by Stave", p.position(p.dec.InputOffset()-1), maxDepth)
 		}
-		return p.object()
+		if t == '[' {
+			return p.array(depth + 1)
+		}
+		return p.object(depth + 1)
 	}
 	return nil, p.fail(fmt.Errorf("unexpected %v", tok))
 }
 
-func (p *treeParser) array() (*node, error) {
+func (p *treeParser) array(depth int) (*node, error) {
 	n := &node{kind: arrayNode}
 	for p.dec.More() {
-		item, err := p.value()
+		item, err := p.value(depth)
 		if err != nil {
 			return nil, err
 		}
@@ -124,7 +150,7 @@ func (p *treeParser) array() (*node, error) {
 	return n, nil
 }
 
-func (p *treeParser) object() (*node, error) {
+func (p *treeParser) object(depth int) (*node, error) {
 	n := &node{kind: objectNode, fields: map[string]*node{}}
 	for p.dec.More() {
 		tok, err := p.dec.Token()
@@ -133,9 +159,9 @@ func (p *treeParser) object() (*node, error) {
 		}
 		key := tok.(string) // the decoder only yields string keys inside an object
 		if _, dup := n.fields[key]; dup {
-			return nil, fmt.Errorf("%s: the key %q appears twice in one object; keep one", p.position(p.dec.InputOffset()), key)
+			return nil, fmt.Errorf("%s: the key %q appears twice in one object; keep one", p.position(p.dec.InputOffset()), cut(key))
 		}
-		value, err := p.value()
+		value, err := p.value(depth)
 		if err != nil {
 			return nil, err
 		}
