@@ -7,12 +7,11 @@ import (
 	"strings"
 )
 
-// Problem is one thing wrong with a model.
+// Problem is one thing wrong with a model: where it lies, and a sentence for
+// the user that numbers items from 1.
 type Problem struct {
-	Item    string // "segment", "support", "point load", "distributed load", "mesh" or "model"
-	Index   int    // 0-based index of the item in its list, -1 for the model and the mesh
-	Field   string // the offending field, e.g. "x", "end", "points[2].x", "area"
-	Message string // a sentence for the user, numbering items from 1
+	Place
+	Message string
 }
 
 // ValidationError lists every problem found in a model.
@@ -45,15 +44,20 @@ const (
 // mergeTolerance is the distance, relative to L, below which key points are one node.
 const mergeTolerance = 1e-12
 
+var (
+	modelItem = Item{ModelItem, -1}
+	meshItem  = Item{MeshItem, -1}
+)
+
 // Validate checks the model and returns nil or a *ValidationError listing all problems.
 func (m *Model) Validate() error {
 	v := validator{}
 	if m == nil {
-		v.add("model", -1, "", "there is no model")
+		v.add(Place{Item: modelItem}, "there is no model")
 		return v.err()
 	}
 	if len(m.Segments) == 0 {
-		v.add("model", -1, "segments", "the member has no segments: add at least one segment")
+		v.add(Place{Item: modelItem, Property: SegmentsProperty}, "the member has no segments: add at least one segment")
 		return v.err()
 	}
 	L := m.Length()
@@ -66,11 +70,11 @@ func (m *Model) Validate() error {
 	v.distributedLoads(m.DistributedLoad, lengthKnown)
 	for i, g := range m.Gravity {
 		if !isFinite(g) {
-			v.add("model", -1, fmt.Sprintf("gravity[%d]", i), fmt.Sprintf("the gravity component %d is %v: enter a finite value in m/s²", i+1, g))
+			v.add(Place{Item: modelItem, Property: GravityProperty, Dof: Dof(i)}, fmt.Sprintf("the gravity component %d is %v: enter a finite value in m/s²", i+1, g))
 		}
 	}
 	if !isFinite(m.TemperatureChange) {
-		v.add("model", -1, "temperature change", fmt.Sprintf("the temperature change is %v: enter a finite value in K", m.TemperatureChange))
+		v.add(Place{Item: modelItem, Property: TemperatureChangeProperty}, fmt.Sprintf("the temperature change is %v: enter a finite value in K", m.TemperatureChange))
 	}
 	v.mesh(m, lengthKnown)
 	return v.err()
@@ -81,8 +85,8 @@ type validator struct {
 	L, tol   float64
 }
 
-func (v *validator) add(item string, index int, field, msg string) {
-	v.problems = append(v.problems, Problem{Item: item, Index: index, Field: field, Message: msg})
+func (v *validator) add(at Place, msg string) {
+	v.problems = append(v.problems, Problem{Place: at, Message: msg})
 }
 
 func (v *validator) err() error {
@@ -92,77 +96,84 @@ func (v *validator) err() error {
 	return &ValidationError{Problems: v.problems}
 }
 
-// positive reports a property that must be finite and > 0 (or >= 0 when zero is allowed).
-func (v *validator) property(item string, i int, field, name string, value float64, unit string, zeroAllowed bool) {
+// label names an item as users count it, e.g. "support 3".
+func label(it Item) string { return fmt.Sprintf("%s %d", it.Kind, it.Index+1) }
+
+// property reports a property that must be finite and > 0 (or >= 0 when zero is allowed).
+func (v *validator) property(at Place, name string, value float64, unit string, zeroAllowed bool) {
 	switch {
 	case !isFinite(value):
-		v.add(item, i, field, fmt.Sprintf("%s %d: %s is %v: enter a finite value in %s", item, i+1, name, value, unit))
+		v.add(at, fmt.Sprintf("%s: %s is %v: enter a finite value in %s", label(at.Item), name, value, unit))
 	case value < 0 || (value == 0 && !zeroAllowed):
 		want := "positive"
 		if zeroAllowed {
 			want = "zero or positive"
 		}
-		v.add(item, i, field, fmt.Sprintf("%s %d: %s is %s %s: it must be %s", item, i+1, name, fmtNumber(value), unit, want))
+		v.add(at, fmt.Sprintf("%s: %s is %s %s: it must be %s", label(at.Item), name, fmtNumber(value), unit, want))
 	}
 }
 
 func (v *validator) segments(segs []Segment) {
 	for i, s := range segs {
+		it := Item{SegmentItem, i}
 		badEnds := false
 		for _, e := range []struct {
-			field string
-			x     float64
-		}{{"start", s.Start}, {"end", s.End}} {
+			property Property
+			name     string
+			x        float64
+		}{{StartProperty, "start", s.Start}, {EndProperty, "end", s.End}} {
 			if !isFinite(e.x) {
-				v.add("segment", i, e.field, fmt.Sprintf("segment %d: its %s is %v: enter a finite position in m", i+1, e.field, e.x))
+				v.add(Place{Item: it, Property: e.property}, fmt.Sprintf("segment %d: its %s is %v: enter a finite position in m", i+1, e.name, e.x))
 				badEnds = true
 			}
 		}
 		if !badEnds {
 			if s.End <= s.Start {
-				v.add("segment", i, "end", fmt.Sprintf("segment %d runs from x = %s to x = %s: its end must lie beyond its start", i+1, fmtMetres(s.Start), fmtMetres(s.End)))
+				v.add(Place{Item: it, Property: EndProperty}, fmt.Sprintf("segment %d runs from x = %s to x = %s: its end must lie beyond its start", i+1, fmtMetres(s.Start), fmtMetres(s.End)))
 			}
 			prev := 0.0
 			if i > 0 {
 				prev = segs[i-1].End
 			}
+			start := Place{Item: it, Property: StartProperty}
 			switch d := s.Start - prev; {
 			case i == 0 && math.Abs(d) > v.tol:
-				v.add("segment", i, "start", fmt.Sprintf("segment 1 starts at x = %s: the member must start at x = 0", fmtMetres(s.Start)))
+				v.add(start, fmt.Sprintf("segment 1 starts at x = %s: the member must start at x = 0", fmtMetres(s.Start)))
 			case i > 0 && d > v.tol:
-				v.add("segment", i, "start", fmt.Sprintf("there is a gap between segment %d (ends at x = %s) and segment %d (starts at x = %s): make them meet", i, fmtMetres(prev), i+1, fmtMetres(s.Start)))
+				v.add(start, fmt.Sprintf("there is a gap between segment %d (ends at x = %s) and segment %d (starts at x = %s): make them meet", i, fmtMetres(prev), i+1, fmtMetres(s.Start)))
 			case i > 0 && d < -v.tol:
-				v.add("segment", i, "start", fmt.Sprintf("segment %d (starts at x = %s) overlaps segment %d (ends at x = %s): make them meet", i+1, fmtMetres(s.Start), i, fmtMetres(prev)))
+				v.add(start, fmt.Sprintf("segment %d (starts at x = %s) overlaps segment %d (ends at x = %s): make them meet", i+1, fmtMetres(s.Start), i, fmtMetres(prev)))
 			}
 		}
-		v.property("segment", i, "area", "the area A", s.Section.Area, "m²", false)
-		v.property("segment", i, "second moment", "the second moment of area I", s.Section.SecondMoment, "m⁴", false)
-		v.property("segment", i, "fibre distance", "the extreme fibre distance c", s.Section.FibreDistance, "m", false)
-		v.property("segment", i, "elastic", "Young's modulus E", s.Material.Elastic, "Pa", false)
-		v.property("segment", i, "density", "the density", s.Material.Density, "kg/m³", true)
-		v.property("segment", i, "allowable", "the allowable stress", s.Material.Allowable, "Pa", true)
+		at := func(p Property) Place { return Place{Item: it, Property: p} }
+		v.property(at(AreaProperty), "the area A", s.Section.Area, "m²", false)
+		v.property(at(SecondMomentProperty), "the second moment of area I", s.Section.SecondMoment, "m⁴", false)
+		v.property(at(FibreDistanceProperty), "the extreme fibre distance c", s.Section.FibreDistance, "m", false)
+		v.property(at(ElasticProperty), "Young's modulus E", s.Material.Elastic, "Pa", false)
+		v.property(at(DensityProperty), "the density", s.Material.Density, "kg/m³", true)
+		v.property(at(AllowableProperty), "the allowable stress", s.Material.Allowable, "Pa", true)
 		if a := s.Material.ThermalExpansion; !isFinite(a) {
-			v.add("segment", i, "thermal expansion", fmt.Sprintf("segment %d: the thermal expansion coefficient is %v: enter a finite value in 1/K", i+1, a))
+			v.add(at(ThermalExpansionProperty), fmt.Sprintf("segment %d: the thermal expansion coefficient is %v: enter a finite value in 1/K", i+1, a))
 		}
 	}
 }
 
 // position checks that x lies on the member; it returns false when x is unusable.
-func (v *validator) position(item string, i int, field, what string, x float64, lengthKnown bool) bool {
+func (v *validator) position(at Place, what string, x float64, lengthKnown bool) bool {
 	if !isFinite(x) {
-		v.add(item, i, field, fmt.Sprintf("%s %d: %s is %v: enter a finite position in m", item, i+1, what, x))
+		v.add(at, fmt.Sprintf("%s: %s is %v: enter a finite position in m", label(at.Item), what, x))
 		return false
 	}
 	if lengthKnown && (x < -v.tol || x > v.L+v.tol) {
-		v.add(item, i, field, fmt.Sprintf("%s %d at x = %s lies outside the member (length %s)", item, i+1, fmtMetres(x), fmtMetres(v.L)))
+		v.add(at, fmt.Sprintf("%s at x = %s lies outside the member (length %s)", label(at.Item), fmtMetres(x), fmtMetres(v.L)))
 		return false
 	}
 	return true
 }
 
-func (v *validator) finite(item string, i int, field, what string, value float64, unit string) {
+func (v *validator) finite(at Place, what string, value float64, unit string) {
 	if !isFinite(value) {
-		v.add(item, i, field, fmt.Sprintf("%s %d: %s is %v: enter a finite value in %s", item, i+1, what, value, unit))
+		v.add(at, fmt.Sprintf("%s: %s is %v: enter a finite value in %s", label(at.Item), what, value, unit))
 	}
 }
 
@@ -171,39 +182,40 @@ var springUnits = [3]string{"N/m", "N/m", "N·m/rad"}
 
 func (v *validator) supports(sups []Support, lengthKnown bool) {
 	for i, s := range sups {
-		if v.position("support", i, "x", "its position", s.X, lengthKnown) {
+		it := Item{SupportItem, i}
+		if v.position(Place{Item: it, Property: PositionProperty}, "its position", s.X, lengthKnown) {
 			for j := 0; j < i; j++ {
 				if isFinite(sups[j].X) && math.Abs(sups[j].X-s.X) <= v.tol {
-					v.add("support", i, "x", fmt.Sprintf("supports %d and %d are both at x = %s: keep one support per point and choose a kind that restrains all the motions you need", j+1, i+1, fmtMetres(s.X)))
+					v.add(Place{Item: it, Property: PositionProperty}, fmt.Sprintf("supports %d and %d are both at x = %s: keep one support per point and choose a kind that restrains all the motions you need", j+1, i+1, fmtMetres(s.X)))
 					break
 				}
 			}
 		}
 		if s.Kind < Fixed || s.Kind > Spring {
-			v.add("support", i, "kind", fmt.Sprintf("support %d has an unknown kind (%d): choose fixed, pinned, roller, axial, guided or spring", i+1, int(s.Kind)))
+			v.add(Place{Item: it, Property: KindProperty}, fmt.Sprintf("support %d has an unknown kind (%d): choose fixed, pinned, roller, axial, guided or spring", i+1, int(s.Kind)))
 			continue
 		}
 		if s.Kind == Spring {
 			stiff := false
 			for d, k := range s.Stiffness {
-				field := fmt.Sprintf("stiffness[%d]", d)
+				at := Place{Item: it, Property: MotionStiffnessProperty, Dof: Dof(d)}
 				switch {
 				case !isFinite(k):
-					v.add("support", i, field, fmt.Sprintf("support %d: the %s spring stiffness is %v: enter a finite value in %s", i+1, Dof(d), k, springUnits[d]))
+					v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %v: enter a finite value in %s", i+1, Dof(d), k, springUnits[d]))
 				case k < 0:
-					v.add("support", i, field, fmt.Sprintf("support %d: the %s spring stiffness is %s %s: it must not be negative", i+1, Dof(d), fmtNumber(k), springUnits[d]))
+					v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %s %s: it must not be negative", i+1, Dof(d), fmtNumber(k), springUnits[d]))
 				case k > 0:
 					stiff = true
 				}
 			}
 			if !stiff {
-				v.add("support", i, "stiffness", fmt.Sprintf("support %d is a spring with no stiffness in any direction: give at least one positive stiffness or remove it", i+1))
+				v.add(Place{Item: it, Property: StiffnessProperty}, fmt.Sprintf("support %d is a spring with no stiffness in any direction: give at least one positive stiffness or remove it", i+1))
 			}
 			continue
 		}
 		for d := Axial; d <= Rotation; d++ {
 			if s.Kind.Restrains(d) {
-				v.finite("support", i, fmt.Sprintf("settlement[%d]", d), fmt.Sprintf("the %s settlement", d), s.Settlement[d], dofUnits[d])
+				v.finite(Place{Item: it, Property: SettlementProperty, Dof: d}, fmt.Sprintf("the %s settlement", d), s.Settlement[d], dofUnits[d])
 			}
 		}
 	}
@@ -211,34 +223,36 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 
 func (v *validator) pointLoads(loads []PointLoad, lengthKnown bool) {
 	for i, p := range loads {
-		v.position("point load", i, "x", "its position", p.X, lengthKnown)
-		v.finite("point load", i, "axial", "the axial force", p.Axial, "N")
-		v.finite("point load", i, "transverse", "the transverse force", p.Transverse, "N")
-		v.finite("point load", i, "moment", "the moment", p.Moment, "N·m")
+		at := func(p Property) Place { return Place{Item: Item{PointLoadItem, i}, Property: p} }
+		v.position(at(PositionProperty), "its position", p.X, lengthKnown)
+		v.finite(at(AxialForceProperty), "the axial force", p.Axial, "N")
+		v.finite(at(TransverseForceProperty), "the transverse force", p.Transverse, "N")
+		v.finite(at(MomentProperty), "the moment", p.Moment, "N·m")
 	}
 }
 
 func (v *validator) distributedLoads(loads []DistributedLoad, lengthKnown bool) {
-	const item = "distributed load"
 	for i, d := range loads {
+		it := Item{DistributedLoadItem, i}
 		if d.Direction != Axial && d.Direction != Transverse {
-			v.add(item, i, "direction", fmt.Sprintf("distributed load %d acts in direction %d: choose axial or transverse", i+1, int(d.Direction)))
+			v.add(Place{Item: it, Property: DirectionProperty}, fmt.Sprintf("distributed load %d acts in direction %d: choose axial or transverse", i+1, int(d.Direction)))
 		}
+		points := Place{Item: it, Property: PointsProperty}
 		if len(d.Points) < 2 {
-			v.add(item, i, "points", fmt.Sprintf("distributed load %d has %d point(s): give at least a start and an end point", i+1, len(d.Points)))
+			v.add(points, fmt.Sprintf("distributed load %d has %d point(s): give at least a start and an end point", i+1, len(d.Points)))
 			continue
 		}
 		usable := true
 		for j, p := range d.Points {
-			field := fmt.Sprintf("points[%d]", j)
+			x := Place{Item: it, Property: PointXProperty, Vertex: j}
 			if !isFinite(p.X) {
-				v.add(item, i, field+".x", fmt.Sprintf("distributed load %d: point %d has position %v: enter a finite position in m", i+1, j+1, p.X))
+				v.add(x, fmt.Sprintf("distributed load %d: point %d has position %v: enter a finite position in m", i+1, j+1, p.X))
 				usable = false
 			} else if lengthKnown && (p.X < -v.tol || p.X > v.L+v.tol) {
-				v.add(item, i, field+".x", fmt.Sprintf("distributed load %d: point %d at x = %s lies outside the member (length %s)", i+1, j+1, fmtMetres(p.X), fmtMetres(v.L)))
+				v.add(x, fmt.Sprintf("distributed load %d: point %d at x = %s lies outside the member (length %s)", i+1, j+1, fmtMetres(p.X), fmtMetres(v.L)))
 			}
 			if !isFinite(p.Intensity) {
-				v.add(item, i, field+".intensity", fmt.Sprintf("distributed load %d: point %d has intensity %v: enter a finite value in N/m", i+1, j+1, p.Intensity))
+				v.add(Place{Item: it, Property: PointIntensityProperty, Vertex: j}, fmt.Sprintf("distributed load %d: point %d has intensity %v: enter a finite value in N/m", i+1, j+1, p.Intensity))
 			}
 		}
 		if !usable {
@@ -246,12 +260,12 @@ func (v *validator) distributedLoads(loads []DistributedLoad, lengthKnown bool) 
 		}
 		first, last := d.Points[0].X, d.Points[len(d.Points)-1].X
 		if math.Abs(last-first) <= v.tol {
-			v.add(item, i, "points", fmt.Sprintf("distributed load %d starts and ends at x = %s: give it a length", i+1, fmtMetres(first)))
+			v.add(points, fmt.Sprintf("distributed load %d starts and ends at x = %s: give it a length", i+1, fmtMetres(first)))
 			continue
 		}
 		for j := 1; j < len(d.Points); j++ {
 			if d.Points[j].X-d.Points[j-1].X <= v.tol {
-				v.add(item, i, fmt.Sprintf("points[%d].x", j), fmt.Sprintf("distributed load %d: point %d (x = %s) does not lie beyond point %d (x = %s): list the points in increasing x without repeats", i+1, j+1, fmtMetres(d.Points[j].X), j, fmtMetres(d.Points[j-1].X)))
+				v.add(Place{Item: it, Property: PointXProperty, Vertex: j}, fmt.Sprintf("distributed load %d: point %d (x = %s) does not lie beyond point %d (x = %s): list the points in increasing x without repeats", i+1, j+1, fmtMetres(d.Points[j].X), j, fmtMetres(d.Points[j-1].X)))
 				break
 			}
 		}
@@ -261,13 +275,13 @@ func (v *validator) distributedLoads(loads []DistributedLoad, lengthKnown bool) 
 func (v *validator) mesh(m *Model, lengthKnown bool) {
 	ms := m.Mesh
 	if ms.Elements < 0 {
-		v.add("mesh", -1, "elements", fmt.Sprintf("the mesh asks for %d elements: give zero (automatic) or a positive number", ms.Elements))
+		v.add(Place{Item: meshItem, Property: ElementsProperty}, fmt.Sprintf("the mesh asks for %d elements: give zero (automatic) or a positive number", ms.Elements))
 	}
 	if h := ms.MaxElementLength; !isFinite(h) || h < 0 {
-		v.add("mesh", -1, "max element length", fmt.Sprintf("the maximum element length is %v m: give zero (no limit) or a positive length", h))
+		v.add(Place{Item: meshItem, Property: MaxElementLengthProperty}, fmt.Sprintf("the maximum element length is %v m: give zero (no limit) or a positive length", h))
 	}
 	if ms.BarOrder != 0 && ms.BarOrder != LinearBar && ms.BarOrder != QuadraticBar {
-		v.add("mesh", -1, "bar order", fmt.Sprintf("the bar element order is %d: choose 1 (linear) or 2 (quadratic)", int(ms.BarOrder)))
+		v.add(Place{Item: meshItem, Property: BarOrderProperty}, fmt.Sprintf("the bar element order is %d: choose 1 (linear) or 2 (quadratic)", int(ms.BarOrder)))
 	}
 	if !lengthKnown {
 		return
@@ -281,7 +295,7 @@ func (v *validator) mesh(m *Model, lengthKnown bool) {
 		count += math.Ceil(v.L / h)
 	}
 	if need := count * bytesPerElement; need > memoryLimit/2 {
-		v.add("mesh", -1, "elements", fmt.Sprintf("the mesh would need about %.1f GB of memory (%.3g elements), more than the %.0f GB allowed: ask for fewer elements or a longer maximum element length", need/1e9, count, memoryLimit/2/1e9))
+		v.add(Place{Item: meshItem, Property: ElementsProperty}, fmt.Sprintf("the mesh would need about %.1f GB of memory (%.3g elements), more than the %.0f GB allowed: ask for fewer elements or a longer maximum element length", need/1e9, count, memoryLimit/2/1e9))
 	}
 }
 

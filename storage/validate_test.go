@@ -7,6 +7,8 @@ import (
 	"slices"
 	"strings"
 	"testing"
+
+	"stave/fem"
 )
 
 func readDemo(t *testing.T) string {
@@ -154,5 +156,73 @@ func TestMigrateAppliesStepsInOrder(t *testing.T) {
 	}
 	if len(applied) != 0 {
 		t.Errorf("steps %v ran before the missing one was found", applied)
+	}
+}
+
+// Every place a fem.Problem can name maps to the file's key for it, with the
+// loads numbered in file order (docs/format.md).
+func TestModelPathOfEveryProperty(t *testing.T) {
+	// File order: distributed load 0, point load 0, point load 1.
+	loads := [2][]string{PointLoad: {"loads[1]", "loads[2]"}, DistributedLoad: {"loads[0]"}}
+	at := func(kind fem.ItemKind, i int, p fem.Property) fem.Place {
+		return fem.Place{Item: fem.Item{Kind: kind, Index: i}, Property: p}
+	}
+	model, mesh := func(p fem.Property) fem.Place { return at(fem.ModelItem, -1, p) }, func(p fem.Property) fem.Place { return at(fem.MeshItem, -1, p) }
+	spring := at(fem.SupportItem, 2, fem.MotionStiffnessProperty)
+	spring.Dof = fem.Rotation
+	settlement := at(fem.SupportItem, 0, fem.SettlementProperty)
+	settlement.Dof = fem.Transverse
+	gravityX, gravityY := model(fem.GravityProperty), model(fem.GravityProperty)
+	gravityY.Dof = fem.Transverse
+	pointX, intensity := at(fem.DistributedLoadItem, 0, fem.PointXProperty), at(fem.DistributedLoadItem, 0, fem.PointIntensityProperty)
+	pointX.Vertex, intensity.Vertex = 2, 3
+	tests := []struct {
+		place fem.Place
+		path  string
+	}{
+		{model(fem.NoProperty), ""},
+		{model(fem.SegmentsProperty), "member.segments"},
+		{gravityX, "self_weight.gravity_x"},
+		{gravityY, "self_weight.gravity_y"},
+		{model(fem.TemperatureChangeProperty), "temperature_change"},
+		{at(fem.SegmentItem, 1, fem.NoProperty), "member.segments[1]"},
+		{at(fem.SegmentItem, 1, fem.StartProperty), "member.segments[1].start"},
+		{at(fem.SegmentItem, 0, fem.EndProperty), "member.segments[0].end"},
+		{at(fem.SegmentItem, 0, fem.AreaProperty), "member.segments[0].section.area"},
+		{at(fem.SegmentItem, 0, fem.SecondMomentProperty), "member.segments[0].section.second_moment"},
+		{at(fem.SegmentItem, 0, fem.FibreDistanceProperty), "member.segments[0].section.fibre_distance"},
+		{at(fem.SegmentItem, 0, fem.ElasticProperty), "member.segments[0].material.elastic_modulus"},
+		{at(fem.SegmentItem, 0, fem.DensityProperty), "member.segments[0].material.density"},
+		{at(fem.SegmentItem, 0, fem.ThermalExpansionProperty), "member.segments[0].material.thermal_expansion"},
+		{at(fem.SegmentItem, 0, fem.AllowableProperty), "member.segments[0].material.allowable_stress"},
+		{at(fem.SupportItem, 2, fem.PositionProperty), "supports[2].x"},
+		{at(fem.SupportItem, 2, fem.KindProperty), "supports[2].kind"},
+		{at(fem.SupportItem, 2, fem.StiffnessProperty), "supports[2].stiffness"},
+		{spring, "supports[2].stiffness.rotation"},
+		{settlement, "supports[0].settlement.transverse"},
+		{at(fem.PointLoadItem, 1, fem.PositionProperty), "loads[2].x"},
+		{at(fem.PointLoadItem, 0, fem.AxialForceProperty), "loads[1].axial"},
+		{at(fem.PointLoadItem, 0, fem.TransverseForceProperty), "loads[1].transverse"},
+		{at(fem.PointLoadItem, 0, fem.MomentProperty), "loads[1].moment"},
+		{at(fem.DistributedLoadItem, 0, fem.DirectionProperty), "loads[0].direction"},
+		{at(fem.DistributedLoadItem, 0, fem.PointsProperty), "loads[0].points"},
+		{pointX, "loads[0].points[2][0]"},
+		{intensity, "loads[0].points[3][1]"},
+		{mesh(fem.NoProperty), "mesh"},
+		{mesh(fem.ElementsProperty), "mesh.elements"},
+		{mesh(fem.MaxElementLengthProperty), "mesh.max_element_length"},
+		{mesh(fem.BarOrderProperty), "mesh.bar_order"},
+	}
+	covered := map[fem.Property]bool{}
+	for _, tt := range tests {
+		covered[tt.place.Property] = true
+		if got := modelPath(tt.place, loads); got != tt.path {
+			t.Errorf("%+v: path %q, want %q", tt.place, got, tt.path)
+		}
+	}
+	for p := fem.NoProperty; p <= fem.TemperatureChangeProperty; p++ {
+		if !covered[p] {
+			t.Errorf("property %d has no row in this table", p)
+		}
 	}
 }
