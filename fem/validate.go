@@ -129,20 +129,22 @@ func (v *validator) segments(segs []Segment) {
 		}
 		if !badEnds {
 			if s.End <= s.Start {
-				v.add(Place{Item: it, Property: EndProperty}, fmt.Sprintf("segment %d runs from x = %s to x = %s: its end must lie beyond its start", i+1, fmtMetres(s.Start), fmtMetres(s.End)))
+				start, end := fmtPair(s.Start, s.End)
+				v.add(Place{Item: it, Property: EndProperty}, fmt.Sprintf("segment %d runs from x = %s m to x = %s m: its end must lie beyond its start", i+1, start, end))
 			}
 			prev := 0.0
 			if i > 0 {
 				prev = segs[i-1].End
 			}
 			start := Place{Item: it, Property: StartProperty}
+			before, here := fmtPair(prev, s.Start)
 			switch d := s.Start - prev; {
 			case i == 0 && math.Abs(d) > v.tol:
 				v.add(start, fmt.Sprintf("segment 1 starts at x = %s: the member must start at x = 0", fmtMetres(s.Start)))
 			case i > 0 && d > v.tol:
-				v.add(start, fmt.Sprintf("there is a gap between segment %d (ends at x = %s) and segment %d (starts at x = %s): make them meet", i, fmtMetres(prev), i+1, fmtMetres(s.Start)))
+				v.add(start, fmt.Sprintf("there is a gap between segment %d (ends at x = %s m) and segment %d (starts at x = %s m): make them meet", i, before, i+1, here))
 			case i > 0 && d < -v.tol:
-				v.add(start, fmt.Sprintf("segment %d (starts at x = %s) overlaps segment %d (ends at x = %s): make them meet", i+1, fmtMetres(s.Start), i, fmtMetres(prev)))
+				v.add(start, fmt.Sprintf("segment %d (starts at x = %s m) overlaps segment %d (ends at x = %s m): make them meet", i+1, here, i, before))
 			}
 		}
 		at := func(p Property) Place { return Place{Item: it, Property: p} }
@@ -165,7 +167,8 @@ func (v *validator) position(at Place, what string, x float64, lengthKnown bool)
 		return false
 	}
 	if lengthKnown && (x < -v.tol || x > v.L+v.tol) {
-		v.add(at, fmt.Sprintf("%s at x = %s lies outside the member (length %s)", label(at.Item), fmtMetres(x), fmtMetres(v.L)))
+		here, length := fmtPair(x, v.L)
+		v.add(at, fmt.Sprintf("%s at x = %s m lies outside the member (length %s m)", label(at.Item), here, length))
 		return false
 	}
 	return true
@@ -249,7 +252,8 @@ func (v *validator) distributedLoads(loads []DistributedLoad, lengthKnown bool) 
 				v.add(x, fmt.Sprintf("distributed load %d: point %d has position %v: enter a finite position in m", i+1, j+1, p.X))
 				usable = false
 			} else if lengthKnown && (p.X < -v.tol || p.X > v.L+v.tol) {
-				v.add(x, fmt.Sprintf("distributed load %d: point %d at x = %s lies outside the member (length %s)", i+1, j+1, fmtMetres(p.X), fmtMetres(v.L)))
+				here, length := fmtPair(p.X, v.L)
+				v.add(x, fmt.Sprintf("distributed load %d: point %d at x = %s m lies outside the member (length %s m)", i+1, j+1, here, length))
 			}
 			if !isFinite(p.Intensity) {
 				v.add(Place{Item: it, Property: PointIntensityProperty, Vertex: j}, fmt.Sprintf("distributed load %d: point %d has intensity %v: enter a finite value in N/m", i+1, j+1, p.Intensity))
@@ -265,7 +269,8 @@ func (v *validator) distributedLoads(loads []DistributedLoad, lengthKnown bool) 
 		}
 		for j := 1; j < len(d.Points); j++ {
 			if d.Points[j].X-d.Points[j-1].X <= v.tol {
-				v.add(Place{Item: it, Property: PointXProperty, Vertex: j}, fmt.Sprintf("distributed load %d: point %d (x = %s) does not lie beyond point %d (x = %s): list the points in increasing x without repeats", i+1, j+1, fmtMetres(d.Points[j].X), j, fmtMetres(d.Points[j-1].X)))
+				here, before := fmtPair(d.Points[j].X, d.Points[j-1].X)
+				v.add(Place{Item: it, Property: PointXProperty, Vertex: j}, fmt.Sprintf("distributed load %d: point %d (x = %s m) does not lie beyond point %d (x = %s m): list the points in increasing x without repeats", i+1, j+1, here, j, before))
 				break
 			}
 		}
@@ -301,13 +306,43 @@ func (v *validator) mesh(m *Model, lengthKnown bool) {
 
 func isFinite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 
-// fmtNumber prints a value with up to six significant digits and at least one decimal.
-func fmtNumber(x float64) string {
-	s := strconv.FormatFloat(x, 'g', 6, 64)
+// fmtNumber prints a value with up to six significant digits and at least
+// one decimal: the shortest form that reads back as x when it has six digits
+// or fewer (5e-324, not 4.94066e-324), else x rounded to six.
+func fmtNumber(x float64) string { return fmtDigits(x, 6) }
+
+// fmtDigits is fmtNumber with up to digits significant digits.
+func fmtDigits(x float64, digits int) string {
+	s := strconv.FormatFloat(x, 'g', -1, 64)
+	if significantDigits(s) > digits {
+		s = strconv.FormatFloat(x, 'g', digits, 64)
+	}
 	if !strings.ContainsAny(s, ".eEn") { // n: NaN, Inf
 		s += ".0"
 	}
 	return s
+}
+
+// significantDigits counts the digits of a formatted number's mantissa,
+// leading zeros left out.
+func significantDigits(s string) int {
+	if i := strings.IndexAny(s, "eE"); i >= 0 {
+		s = s[:i]
+	}
+	s = strings.TrimLeft(s, "+-0.")
+	return len(strings.ReplaceAll(s, ".", ""))
+}
+
+// fmtPair prints two values with the fewest significant digits, six or
+// more, that tell them apart, so that a gap of 1e-9 m between 2 m and
+// 2.000000001 m shows.
+func fmtPair(a, b float64) (string, string) {
+	for digits := 6; ; digits++ {
+		sa, sb := fmtDigits(a, digits), fmtDigits(b, digits)
+		if sa != sb || a == b || digits >= 17 { // 17 digits tell any two float64 apart
+			return sa, sb
+		}
+	}
 }
 
 // fmtMetres prints a position for messages, e.g. "3.2 m".

@@ -21,14 +21,17 @@ func validModel() *Model {
 // place is the place of property p of item i of a kind.
 func place(kind ItemKind, i int, p Property) Place { return Place{Item: Item{kind, i}, Property: p} }
 
+// validationCase edits validModel and expects a problem at place whose message holds text.
+type validationCase struct {
+	name  string
+	edit  func(m *Model)
+	place Place
+	text  string // part of the message
+}
+
 func TestValidate(t *testing.T) {
 	nan, inf := math.NaN(), math.Inf(1)
-	cases := []struct {
-		name  string
-		edit  func(m *Model)
-		place Place
-		text  string // part of the message
-	}{
+	checkValidation(t, []validationCase{
 		{"no segments", func(m *Model) { m.Segments = nil }, place(ModelItem, -1, SegmentsProperty), "the member has no segments"},
 		{"zero length segment", func(m *Model) { m.Segments[1].End = 1 }, place(SegmentItem, 1, EndProperty), "segment 2 runs from x = 1.0 m to x = 1.0 m"},
 		{"negative E", func(m *Model) { m.Segments[0].Material.Elastic = -2e11 }, place(SegmentItem, 0, ElasticProperty), "segment 1: Young's modulus E is -2e+11 Pa: it must be positive"},
@@ -70,7 +73,41 @@ func TestValidate(t *testing.T) {
 		{"bad bar order", func(m *Model) { m.Mesh.BarOrder = 3 }, place(MeshItem, -1, BarOrderProperty), "the bar element order is 3"},
 		{"too many elements", func(m *Model) { m.Mesh.Elements = 2_000_000_000 }, place(MeshItem, -1, ElementsProperty), "the mesh would need about 800.0 GB"},
 		{"too short elements", func(m *Model) { m.Mesh.MaxElementLength = 1e-9 }, place(MeshItem, -1, ElementsProperty), "ask for fewer elements or a longer maximum element length"},
-	}
+	})
+}
+
+// Hostile but finite input: numbers that print alike, values at the edges
+// of float64, requests beyond the machine.
+func TestValidateHostileInput(t *testing.T) {
+	checkValidation(t, []validationCase{
+		// A gap of 1e-9 m shows in the digits printed.
+		{"gap of a nanometre", func(m *Model) { m.Segments[1].Start = 1 + 1e-9 }, place(SegmentItem, 1, StartProperty),
+			"there is a gap between segment 1 (ends at x = 1.0 m) and segment 2 (starts at x = 1.000000001 m)"},
+		{"overlap of a nanometre", func(m *Model) { m.Segments[1].Start = 1 - 1e-9 }, place(SegmentItem, 1, StartProperty),
+			"segment 2 (starts at x = 0.999999999 m) overlaps segment 1 (ends at x = 1.0 m)"},
+		{"segment ending a nanometre before its start", func(m *Model) {
+			m.Segments[0].End, m.Segments[1].Start = 2, 2
+			m.Segments[1].End = 2 - 1e-9
+		}, place(SegmentItem, 1, EndProperty), "segment 2 runs from x = 2.0 m to x = 1.999999999 m"},
+		{"support a nanometre past the end", func(m *Model) { m.Supports[1].X = 3 + 1e-9 }, place(SupportItem, 1, PositionProperty),
+			"support 2 at x = 3.000000001 m lies outside the member (length 3.0 m)"},
+		{"load point a nanometre past the end", func(m *Model) { m.DistributedLoad[0].Points[1].X = 3 + 1e-9 },
+			Place{Item: Item{DistributedLoadItem, 0}, Property: PointXProperty, Vertex: 1}, "point 2 at x = 3.000000001 m lies outside the member (length 3.0 m)"},
+		{"load points a nanometre out of order", func(m *Model) {
+			m.DistributedLoad[0].Points = []LoadPoint{{0, 1}, {2, 1}, {2 - 1e-9, 1}, {3, 1}}
+		}, Place{Item: Item{DistributedLoadItem, 0}, Property: PointXProperty, Vertex: 2}, "point 3 (x = 1.999999999 m) does not lie beyond point 2 (x = 2.0 m)"},
+		// The smallest float64 prints as the value it reads back as.
+		{"negative subnormal area", func(m *Model) { m.Segments[0].Section.Area = -math.SmallestNonzeroFloat64 }, place(SegmentItem, 0, AreaProperty),
+			"the area A is -5e-324 m²: it must be positive"},
+		{"negative subnormal spring", func(m *Model) {
+			m.Supports[1] = Support{X: 3, Kind: Spring, Stiffness: [3]float64{1e6, -math.SmallestNonzeroFloat64, 0}}
+		}, Place{Item: Item{SupportItem, 1}, Property: MotionStiffnessProperty, Dof: Transverse}, "the transverse spring stiffness is -5e-324 N/m"},
+	})
+}
+
+// checkValidation runs each case on its own copy of validModel.
+func checkValidation(t *testing.T, cases []validationCase) {
+	t.Helper()
 	if err := validModel().Validate(); err != nil {
 		t.Fatalf("the base model is invalid: %v", err)
 	}
@@ -117,5 +154,26 @@ func TestValidateReportsAll(t *testing.T) {
 	}
 	if _, err := Solve(&Model{}); err == nil {
 		t.Errorf("Solve of an empty model succeeded")
+	}
+}
+
+// Two different numbers never print alike, and a number prints no more
+// digits than it needs to read back.
+func TestFmtPair(t *testing.T) {
+	cases := []struct {
+		a, b         float64
+		wantA, wantB string
+	}{
+		{2, 2 + 1e-9, "2.0", "2.000000001"},
+		{1, math.Nextafter(1, 2), "1.0", "1.0000000000000002"},
+		{math.SmallestNonzeroFloat64, 2 * math.SmallestNonzeroFloat64, "5e-324", "1e-323"},
+		{1.0 / 3, 1.0 / 3, "0.333333", "0.333333"},
+		{1.0 / 3, math.Nextafter(1.0/3, 1), "0.3333333333333333", "0.3333333333333334"},
+		{-2e11, 3.2, "-2e+11", "3.2"},
+	}
+	for _, c := range cases {
+		if a, b := fmtPair(c.a, c.b); a != c.wantA || b != c.wantB {
+			t.Errorf("fmtPair(%v, %v) = %q, %q; want %q, %q", c.a, c.b, a, b, c.wantA, c.wantB)
+		}
 	}
 }
