@@ -41,6 +41,22 @@ const (
 	bytesPerElement = 400
 )
 
+// Stiffness range. The solvers factorize matrices of element stiffnesses
+// (EA/h, 12·EI/h³, … for an element of length h) and spring stiffnesses,
+// and divide loads by them. The band kernels keep their answers over scales
+// of 1e±300 (TestBandLDLScaleInvariance), but a stiffness that underflows to
+// zero or to a subnormal number makes the matrix singular or inexact, and
+// one near overflow leaves no room for the loads and fields computed from
+// it. So every segment's EA/ℓ and EI/ℓ³ (ℓ its length) and every spring
+// stiffness must lie within 1e±150: an element lies within its segment, so
+// its EA/h and EI/h³ are never smaller; stretches down to the merge
+// tolerance (1e-12·L) make them at most 1e36 times larger, still 1e±120
+// inside float64's normal range (2.2e-308 to 1.8e308).
+const (
+	minStiffness = 1e-150
+	maxStiffness = 1e150
+)
+
 // mergeTolerance is the distance, relative to L, below which key points are one node.
 const mergeTolerance = 1e-12
 
@@ -157,8 +173,36 @@ func (v *validator) segments(segs []Segment) {
 		if a := s.Material.ThermalExpansion; !isFinite(a) {
 			v.add(at(ThermalExpansionProperty), fmt.Sprintf("segment %d: the thermal expansion coefficient is %v: enter a finite value in 1/K", i+1, a))
 		}
+		v.segmentStiffness(it, s)
 	}
 }
+
+// segmentStiffness keeps the segment's EA/ℓ and EI/ℓ³ within the stiffness
+// range, working in logarithms so that the check itself cannot overflow.
+func (v *validator) segmentStiffness(it Item, s Segment) {
+	E, A, I, l := s.Material.Elastic, s.Section.Area, s.Section.SecondMoment, s.End-s.Start
+	for _, x := range []float64{E, A, I, l} {
+		if !isFinite(x) || x <= 0 {
+			return // reported above
+		}
+	}
+	for _, k := range []struct {
+		name, symbol, factor string
+		log10                float64
+	}{
+		{"axial stiffness", "EA/ℓ", "A = " + fmtNumber(A) + " m²", log10(E) + log10(A) - log10(l)},
+		{"bending stiffness", "EI/ℓ³", "I = " + fmtNumber(I) + " m⁴", log10(E) + log10(I) - 3*log10(l)},
+	} {
+		if k.log10 < log10(minStiffness) || k.log10 > log10(maxStiffness) {
+			v.add(Place{Item: it}, fmt.Sprintf("%s: its %s %s is about %s N/m (E = %s Pa, %s, ℓ = %s), outside the range the solvers work in (%s to %s N/m): check these values and their units",
+				label(it), k.name, k.symbol, fmtPowerOfTen(k.log10), fmtNumber(E), k.factor, fmtMetres(l), fmtNumber(minStiffness), fmtNumber(maxStiffness)))
+		}
+	}
+}
+
+// log10 is math.Log10 that is right for subnormal x too: math.Log on amd64
+// gives about −709 for every x below 2.2e-308 (Go 1.26), math.Log2 does not.
+func log10(x float64) float64 { return math.Log2(x) * math.Log10(2) }
 
 // position checks that x lies on the member; it returns false when x is unusable.
 func (v *validator) position(at Place, what string, x float64, lengthKnown bool) bool {
@@ -207,6 +251,10 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 					v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %v: enter a finite value in %s", i+1, Dof(d), k, springUnits[d]))
 				case k < 0:
 					v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %s %s: it must not be negative", i+1, Dof(d), fmtNumber(k), springUnits[d]))
+				case k > 0 && (k < minStiffness || k > maxStiffness):
+					v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %s %s, outside the range the solvers work in (%s to %s %s): enter a stiffness in that range, 0 to leave the motion free, or a rigid support kind to hold it",
+						i+1, Dof(d), fmtNumber(k), springUnits[d], fmtNumber(minStiffness), fmtNumber(maxStiffness), springUnits[d]))
+					stiff = true
 				case k > 0:
 					stiff = true
 				}
@@ -347,3 +395,14 @@ func fmtPair(a, b float64) (string, string) {
 
 // fmtMetres prints a position for messages, e.g. "3.2 m".
 func fmtMetres(x float64) string { return fmtNumber(x) + " m" }
+
+// fmtPowerOfTen prints 10^e, for e = log10 of a value that may lie outside
+// float64's range, with two significant digits, e.g. "1.6e-326".
+func fmtPowerOfTen(e float64) string {
+	exponent := math.Floor(e)
+	mantissa := math.Round(math.Pow(10, e-exponent)*10) / 10
+	if mantissa >= 10 {
+		mantissa, exponent = 1, exponent+1
+	}
+	return strconv.FormatFloat(mantissa, 'g', -1, 64) + "e" + fmt.Sprintf("%+03.0f", exponent)
+}

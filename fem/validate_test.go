@@ -102,6 +102,24 @@ func TestValidateHostileInput(t *testing.T) {
 		{"negative subnormal spring", func(m *Model) {
 			m.Supports[1] = Support{X: 3, Kind: Spring, Stiffness: [3]float64{1e6, -math.SmallestNonzeroFloat64, 0}}
 		}, Place{Item: Item{SupportItem, 1}, Property: MotionStiffnessProperty, Dof: Transverse}, "the transverse spring stiffness is -5e-324 N/m"},
+		// Stiffnesses that underflow or overflow are refused before a solver
+		// finds its matrix singular and blames springs or close supports.
+		// By hand: 2e11·0.005/1e300 = 1e-291; 4.94e-324·0.005/1 = 2.5e-326;
+		// 2e11·1e160/2³ = 2.5e170.
+		{"member 1e300 m long", func(m *Model) { m.Segments[1].End = 1e300 }, place(SegmentItem, 1, NoProperty),
+			"segment 2: its axial stiffness EA/ℓ is about 1e-291 N/m (E = 2e+11 Pa, A = 0.005 m², ℓ = 1e+300 m), outside the range the solvers work in (1e-150 to 1e+150 N/m): check these values and their units"},
+		{"E of 5e-324 Pa", func(m *Model) { m.Segments[0].Material.Elastic = math.SmallestNonzeroFloat64 }, place(SegmentItem, 0, NoProperty),
+			"segment 1: its axial stiffness EA/ℓ is about 2.5e-326 N/m (E = 5e-324 Pa, A = 0.005 m², ℓ = 1.0 m), outside the range the solvers work in (1e-150 to 1e+150 N/m): check these values and their units"},
+		{"I of 1e160 m⁴", func(m *Model) { m.Segments[1].Section.SecondMoment = 1e160 }, place(SegmentItem, 1, NoProperty),
+			"segment 2: its bending stiffness EI/ℓ³ is about 2.5e+170 N/m (E = 2e+11 Pa, I = 1e+160 m⁴, ℓ = 2.0 m)"},
+		{"spring of 5e-324 N/m", func(m *Model) {
+			m.Supports[1] = Support{X: 3, Kind: Spring, Stiffness: [3]float64{1e6, math.SmallestNonzeroFloat64, 0}}
+		},
+			Place{Item: Item{SupportItem, 1}, Property: MotionStiffnessProperty, Dof: Transverse},
+			"support 2: the transverse spring stiffness is 5e-324 N/m, outside the range the solvers work in (1e-150 to 1e+150 N/m): enter a stiffness in that range, 0 to leave the motion free, or a rigid support kind to hold it"},
+		{"spring of 1e200 N·m/rad", func(m *Model) { m.Supports[1] = Support{X: 3, Kind: Spring, Stiffness: [3]float64{1e6, 1e6, 1e200}} },
+			Place{Item: Item{SupportItem, 1}, Property: MotionStiffnessProperty, Dof: Rotation},
+			"support 2: the rotation spring stiffness is 1e+200 N·m/rad, outside the range the solvers work in (1e-150 to 1e+150 N·m/rad)"},
 	})
 }
 
