@@ -32,13 +32,38 @@ func (e *ValidationError) Error() string {
 	return b.String()
 }
 
-// Memory limits for a mesh request. Solve allocates about 100 bytes per
-// element and Summarize's sampling about 160 more (TestBytesPerElement); the
-// rest of the margin covers a second solution a caller keeps while the next
-// one is solved.
+// Memory. Validate refuses a model whose analysis would need more than
+// memoryLimit. The estimate counts what every stage allocates per element
+// and per key point, measured by TestMemoryPerStage as the growth of
+// runtime.MemStats.TotalAlloc from one model size to the next, times
+// memoryHeadroom: Go's collector lets the heap grow to twice the live data
+// (GOGC=100), and the application keeps the previous analysis while it
+// solves the next.
 const (
-	memoryLimit     = 8 << 30 // bytes
-	bytesPerElement = 400
+	memoryLimit    = 4 << 30 // bytes for the analysis of one model
+	memoryHeadroom = 4
+
+	// Per element, all stages: Solve, SolveExact, Summarize and Compare
+	// allocated 96 B (the mesh, displacements and element results; from 10⁵
+	// to 2·10⁵ elements, both bar orders). check.Run, outside this package,
+	// allocated nothing per element when measured by hand.
+	stagesBytesPerElement = 100
+	// Per key point, with one element per stretch: Solve allocated at most
+	// 1,552 B (key points from 1,000 to 2,000, made of segment breaks,
+	// supports, point loads or load points), Summarize with the exact
+	// solution at most 590 B (from 125 to 250 key points).
+	solveBytesPerKeyPoint   = 2000
+	summaryBytesPerKeyPoint = 800
+	// The exact solution's system, budgeted for a banded solver: about six
+	// unknowns per stretch, each with a band row of some 17 entries of 8 B,
+	// stored twice (the system and its equilibrated copy), plus the
+	// stretch's own solution (about 220 B). An estimate, not a measurement:
+	// the dense solver in use until then allocates about 1.8 kB per key
+	// point times the number of key points.
+	exactBytesPerKeyPoint = 3000
+
+	bytesPerElement  = memoryHeadroom * stagesBytesPerElement
+	bytesPerKeyPoint = memoryHeadroom * (solveBytesPerKeyPoint + summaryBytesPerKeyPoint + exactBytesPerKeyPoint)
 )
 
 // Stiffness range. The solvers factorize matrices of element stiffnesses
@@ -336,20 +361,45 @@ func (v *validator) mesh(m *Model, lengthKnown bool) {
 	if ms.BarOrder != 0 && ms.BarOrder != LinearBar && ms.BarOrder != QuadraticBar {
 		v.add(Place{Item: meshItem, Property: BarOrderProperty}, fmt.Sprintf("the bar element order is %d: choose 1 (linear) or 2 (quadratic)", int(ms.BarOrder)))
 	}
-	if !lengthKnown {
+	if lengthKnown {
+		v.memory(m)
+	}
+}
+
+// memory refuses a model whose analysis would not fit in memoryLimit:
+// blaming the key points when they do not fit even with one element per
+// stretch, else the elements.
+func (v *validator) memory(m *Model) {
+	// Upper bounds before the key points are merged and the mesh is built:
+	// every end, break, support, point load and load point a key point, and
+	// every stretch between them at least one element more than its share.
+	keys := float64(2 + 2*len(m.Segments) + len(m.Supports) + len(m.PointLoads))
+	for _, d := range m.DistributedLoad {
+		keys += float64(len(d.Points))
+	}
+	elements := float64(max(m.Mesh.Elements, 0)) + keys
+	if h := m.Mesh.MaxElementLength; isFinite(h) && h > 0 {
+		elements += math.Ceil(v.L / h) // +Inf when L/h overflows
+	}
+	elementBytes, keyBytes := elements*bytesPerElement, keys*bytesPerKeyPoint
+	need := elementBytes + keyBytes
+	if need <= memoryLimit {
 		return
 	}
-	// An upper bound on the element count, before the key points are known.
-	count := float64(max(ms.Elements, 0)) + float64(2+2*len(m.Segments)+len(m.Supports)+len(m.PointLoads))
-	for _, d := range m.DistributedLoad {
-		count += float64(len(d.Points))
+	limit := fmtGigabytes(memoryLimit)
+	if least := keys * (bytesPerKeyPoint + bytesPerElement); least > memoryLimit { // too much even with one element per stretch
+		v.add(Place{Item: modelItem}, fmt.Sprintf("the model would need at least %s of memory for its %.3g key points (ends and breaks of segments, supports, point loads and load points), more than the %s allowed: use fewer supports, point loads and load points, or split the member into several models (up to about %.3g key points fit)",
+			fmtGigabytes(least), keys, limit, math.Floor(memoryLimit/(bytesPerKeyPoint+bytesPerElement))))
+		return
 	}
-	if h := ms.MaxElementLength; isFinite(h) && h > 0 {
-		count += math.Ceil(v.L / h)
+	fit := math.Floor((memoryLimit - keyBytes) / bytesPerElement)
+	if !isFinite(need) {
+		v.add(Place{Item: meshItem, Property: ElementsProperty}, fmt.Sprintf("the mesh would need more than %s of memory (over %s elements), far more than the %s allowed: ask for fewer elements or a longer maximum element length (up to about %.3g elements fit)",
+			fmtGigabytes(floorPowerOfTen(math.MaxFloat64)), fmtNumber(floorPowerOfTen(math.MaxFloat64/bytesPerElement)), limit, fit))
+		return
 	}
-	if need := count * bytesPerElement; need > memoryLimit/2 {
-		v.add(Place{Item: meshItem, Property: ElementsProperty}, fmt.Sprintf("the mesh would need about %.1f GB of memory (%.3g elements), more than the %.0f GB allowed: ask for fewer elements or a longer maximum element length", need/1e9, count, memoryLimit/2/1e9))
-	}
+	v.add(Place{Item: meshItem, Property: ElementsProperty}, fmt.Sprintf("the mesh would need about %s of memory (%.3g elements), more than the %s allowed: ask for fewer elements or a longer maximum element length (up to about %.3g elements fit)",
+		fmtGigabytes(need), elements, limit, fit))
 }
 
 func isFinite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
@@ -405,4 +455,17 @@ func fmtPowerOfTen(e float64) string {
 		mantissa, exponent = 1, exponent+1
 	}
 	return strconv.FormatFloat(mantissa, 'g', -1, 64) + "e" + fmt.Sprintf("%+03.0f", exponent)
+}
+
+// floorPowerOfTen is the largest power of ten not above x > 0.
+func floorPowerOfTen(x float64) float64 { return math.Pow(10, math.Floor(math.Log10(x))) }
+
+// fmtGigabytes prints a number of bytes in GB (10⁹ bytes): one decimal up
+// to 1,000 GB, then three significant digits.
+func fmtGigabytes(bytes float64) string {
+	gb := bytes / 1e9
+	if gb < 1000 {
+		return fmt.Sprintf("%.1f GB", gb)
+	}
+	return fmt.Sprintf("%.3g GB", gb)
 }

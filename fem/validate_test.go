@@ -3,6 +3,7 @@ package fem
 import (
 	"errors"
 	"math"
+	"runtime"
 	"strings"
 	"testing"
 )
@@ -120,7 +121,37 @@ func TestValidateHostileInput(t *testing.T) {
 		{"spring of 1e200 N·m/rad", func(m *Model) { m.Supports[1] = Support{X: 3, Kind: Spring, Stiffness: [3]float64{1e6, 1e6, 1e200}} },
 			Place{Item: Item{SupportItem, 1}, Property: MotionStiffnessProperty, Dof: Rotation},
 			"support 2: the rotation spring stiffness is 1e+200 N·m/rad, outside the range the solvers work in (1e-150 to 1e+150 N·m/rad)"},
+		// Requests beyond the machine are refused with the estimate, the
+		// limit and what fits. validModel has 12 key points at most (2 ends,
+		// 4 segment ends, 2 supports, 1 point load, 2 load points, rounded
+		// up by one end), so its elements dominate: 400 B each.
+		{"element length of 5e-324 m", func(m *Model) { m.Mesh.MaxElementLength = math.SmallestNonzeroFloat64 }, place(MeshItem, -1, ElementsProperty),
+			"the mesh would need more than 1e+299 GB of memory (over 1e+305 elements), far more than the 4.3 GB allowed: ask for fewer elements or a longer maximum element length (up to about 1.07e+07 elements fit)"},
+		{"element length of 1e-300 m", func(m *Model) { m.Mesh.MaxElementLength = 1e-300 }, place(MeshItem, -1, ElementsProperty),
+			"the mesh would need about 1.2e+294 GB of memory (3e+300 elements)"},
+		{"a trillion elements", func(m *Model) { m.Mesh.Elements = 1e12 }, place(MeshItem, -1, ElementsProperty),
+			"the mesh would need about 4e+05 GB of memory (1e+12 elements), more than the 4.3 GB allowed: ask for fewer elements or a longer maximum element length (up to about 1.07e+07 elements fit)"},
+		// Key points count too, at 23,200 B each and one element (400 B) per
+		// stretch: 300,000 point loads need at least 300,012 × 23,600 B =
+		// 7.08 GB; 4,294,967,296 / 23,600 = 181,990 key points fit.
+		{"300,000 point loads", func(m *Model) { m.PointLoads = manyPointLoads(300_000, 3) }, place(ModelItem, -1, NoProperty),
+			"the model would need at least 7.1 GB of memory for its 3e+05 key points (ends and breaks of segments, supports, point loads and load points), more than the 4.3 GB allowed: use fewer supports, point loads and load points, or split the member into several models (up to about 1.82e+05 key points fit)"},
+		// 100,000 point loads take 2.32 GB, which leaves room for
+		// (4,294,967,296 − 100,012 × 23,200) / 400 = 4,936,722 elements.
+		{"ten million elements and 100,000 point loads", func(m *Model) {
+			m.PointLoads, m.Mesh.Elements = manyPointLoads(100_000, 3), 10_000_000
+		}, place(MeshItem, -1, ElementsProperty),
+			"the mesh would need about 6.4 GB of memory (1.01e+07 elements), more than the 4.3 GB allowed: ask for fewer elements or a longer maximum element length (up to about 4.94e+06 elements fit)"},
 	})
+}
+
+// manyPointLoads spreads n point loads evenly inside a member of length L.
+func manyPointLoads(n int, L float64) []PointLoad {
+	loads := make([]PointLoad, n)
+	for i := range loads {
+		loads[i] = PointLoad{X: L * float64(i+1) / float64(n+1), Transverse: -1}
+	}
+	return loads
 }
 
 // checkValidation runs each case on its own copy of validModel.
@@ -194,4 +225,126 @@ func TestFmtPair(t *testing.T) {
 			t.Errorf("fmtPair(%v, %v) = %q, %q; want %q, %q", c.a, c.b, a, b, c.wantA, c.wantB)
 		}
 	}
+}
+
+// The bytes per element and per key point that Validate's memory estimate
+// uses must bound what the stages allocate, or the estimate would let
+// through models that do not fit. Bytes are runtime.MemStats.TotalAlloc
+// around each stage; the cost of one more element or key point is the
+// slope between two sizes, so that fixed costs do not count.
+func TestMemoryPerStage(t *testing.T) {
+	if testing.Short() {
+		t.Skip("allocates a large mesh")
+	}
+	// Per element: every stage, from 100,000 to 200,000 elements.
+	for _, order := range []ElementOrder{LinearBar, QuadraticBar} {
+		stages := func(elements int) (float64, int) {
+			m := mixedModel(elements)
+			m.Mesh.BarOrder = order
+			var s *Solution
+			bytes := allocated(t, func() error {
+				var err error
+				if s, err = Solve(m); err != nil {
+					return err
+				}
+				e, err := SolveExact(m)
+				if err != nil {
+					return err
+				}
+				Summarize(s, e)
+				Compare(s, e)
+				return nil
+			})
+			return bytes, len(s.Mesh.Elements)
+		}
+		perElement := slope(stages(100_000))(stages(200_000))
+		t.Logf("order %d: Solve, SolveExact, Summarize and Compare allocate %.0f B per element", order, perElement)
+		if perElement > stagesBytesPerElement {
+			t.Errorf("order %d: the stages allocate %.0f B per element, more than stagesBytesPerElement = %d", order, perElement, stagesBytesPerElement)
+		}
+	}
+	// Per key point, one element per stretch: Solve from 1,000 to 2,000 key
+	// points of each kind; Summarize with the exact solution from 125 to
+	// 250 (the exact solution's dense system makes more too slow for a test).
+	for _, kind := range []string{"segments", "supports", "point loads", "load points"} {
+		solve := func(n int) (float64, int) {
+			m := keyPointModel(kind, n)
+			return allocated(t, func() error { _, err := Solve(m); return err }), len(KeyPoints(m))
+		}
+		summary := func(n int) (float64, int) {
+			m := keyPointModel(kind, n)
+			s, err := Solve(m)
+			if err != nil {
+				t.Fatal(err)
+			}
+			e, err := SolveExact(m)
+			if err != nil {
+				t.Fatal(err)
+			}
+			return allocated(t, func() error { Summarize(s, e); return nil }), len(KeyPoints(m))
+		}
+		solvePerKey, summaryPerKey := slope(solve(1000))(solve(2000)), slope(summary(125))(summary(250))
+		t.Logf("%s: Solve allocates %.0f B per key point, Summarize %.0f", kind, solvePerKey, summaryPerKey)
+		if solvePerKey > solveBytesPerKeyPoint {
+			t.Errorf("%s: Solve allocates %.0f B per key point, more than solveBytesPerKeyPoint = %d", kind, solvePerKey, solveBytesPerKeyPoint)
+		}
+		if summaryPerKey > summaryBytesPerKeyPoint {
+			t.Errorf("%s: Summarize allocates %.0f B per key point, more than summaryBytesPerKeyPoint = %d", kind, summaryPerKey, summaryBytesPerKeyPoint)
+		}
+	}
+	// A billion elements are refused with the memory they would need.
+	m := mixedModel(1_000_000_000)
+	var ve *ValidationError
+	if err := m.Validate(); !errors.As(err, &ve) || !strings.Contains(err.Error(), "the mesh would need about 400.0 GB of memory") {
+		t.Errorf("10⁹ elements: got %v, want the memory refusal", err)
+	}
+}
+
+// slope gives, from (bytes, count) at two sizes, the bytes per extra count.
+func slope(bytes0 float64, count0 int) func(float64, int) float64 {
+	return func(bytes1 float64, count1 int) float64 { return (bytes1 - bytes0) / float64(count1-count0) }
+}
+
+// allocated returns the bytes that run allocates.
+func allocated(t *testing.T, run func() error) float64 {
+	t.Helper()
+	var before, after runtime.MemStats
+	runtime.GC()
+	runtime.ReadMemStats(&before)
+	if err := run(); err != nil {
+		t.Fatal(err)
+	}
+	runtime.ReadMemStats(&after)
+	return float64(after.TotalAlloc - before.TotalAlloc)
+}
+
+// keyPointModel is a simply supported member n m long with about n key
+// points of one kind: segment breaks, supports, point loads or the points
+// of one distributed load. It leaves the element count at zero, one
+// element per stretch.
+func keyPointModel(kind string, n int) *Model {
+	L := float64(n)
+	m := &Model{Segments: []Segment{testSegment(0, L)}, Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}}}
+	switch kind {
+	case "segments":
+		m.Segments = nil
+		for i := range n {
+			m.Segments = append(m.Segments, testSegment(float64(i), float64(i+1)))
+		}
+	case "supports":
+		for i := 1; i < n; i++ {
+			m.Supports = append(m.Supports, Support{X: float64(i) - 0.5, Kind: Roller})
+		}
+	case "point loads":
+		for i := 1; i < n; i++ {
+			m.PointLoads = append(m.PointLoads, PointLoad{X: float64(i) - 0.5, Axial: 10, Transverse: -1e3})
+		}
+	case "load points":
+		points := make([]LoadPoint, n+1)
+		for i := range points {
+			points[i] = LoadPoint{float64(i), float64(-1000 - i%3)}
+		}
+		m.DistributedLoad = []DistributedLoad{{Direction: Transverse, Points: points}}
+	}
+	return m
 }
