@@ -65,6 +65,12 @@ func TestDecodeReportsEachKindOfProblem(t *testing.T) {
 		{name: "two supports at one point", old: `"x": 3,`, new: `"x": 5.5,`, path: "supports[2].x", phrase: "both at x = 5.5 m"},
 		{name: "display units unknown", old: `"units": "SI"`, new: `"units": "imperial"`, path: "view.units", phrase: `use "SI" or "US"`},
 		{name: "safety factor zero", old: `"safety_factor": 1`, new: `"safety_factor": 0`, path: "view.safety_factor", phrase: "above zero"},
+		{name: "segments a nanometre apart", old: `"start": 3,`, new: `"start": 3.000000001,`, path: "member.segments[1].start", phrase: "(ends at x = 3.0 m) and segment 2 (starts at x = 3.000000001 m)"},
+		{name: "modulus of 5e-324", old: `"elastic_modulus": 1.15e10,`, new: `"elastic_modulus": 5e-324,`, path: "member.segments[0]", phrase: "(E = 5e-324 Pa, A = 0.0243 m², ℓ = 3.0 m), outside the range the solvers work in (1e-150 to 1e+150 N/m)"},
+		{name: "member 1e300 m long", old: `"end": 5.5,`, new: `"end": 1e300,`, path: "member.segments[1]", phrase: "ℓ = 1e+300 m), outside the range the solvers work in"},
+		{name: "spring of 1e200", old: `"kind": "roller"`, new: `"kind": "spring", "stiffness": {"transverse": 1e200}`, path: "supports[1].stiffness.transverse", phrase: "1e+200 N/m, outside the range the solvers work in"},
+		{name: "a billion elements", old: `"elements": 22,`, new: `"elements": 1000000000,`, path: "mesh.elements", phrase: "more than the 4.3 GB allowed: ask for fewer elements or a longer maximum element length (up to about 1.07e+07 elements fit)"},
+		{name: "element length of 5e-324", old: `"max_element_length": 0.25`, new: `"max_element_length": 5e-324`, path: "mesh.elements", phrase: "the mesh would need more than 1e+299 GB of memory"},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
