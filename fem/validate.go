@@ -75,8 +75,9 @@ const (
 // it. So every segment's EA/ℓ and EI/ℓ³ (ℓ its length) and every spring
 // stiffness must lie within 1e±150: an element lies within its segment, so
 // its EA/h and EI/h³ are never smaller; stretches down to the merge
-// tolerance (1e-12·L) make them at most 1e36 times larger, still 1e±120
-// inside float64's normal range (2.2e-308 to 1.8e308).
+// tolerance (1e-12·L) make them at most 1e36 times larger. That leaves at
+// least 120 decades to either end of float64's normal range (2.2e-308 to
+// 1.8e308) for the arithmetic on them.
 const (
 	minStiffness = 1e-150
 	maxStiffness = 1e150
