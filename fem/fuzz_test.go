@@ -188,9 +188,9 @@ func buildModel(b *fuzzBytes, wild bool, lim fuzzLimits) *fem.Model {
 
 // problemItems gives the length of the list each item indexes, -1 for the
 // model-wide items.
-func problemItems(m *fem.Model) map[string]int {
-	return map[string]int{"segment": len(m.Segments), "support": len(m.Supports),
-		"point load": len(m.PointLoads), "distributed load": len(m.DistributedLoad), "mesh": -1, "model": -1}
+func problemItems(m *fem.Model) map[fem.ItemKind]int {
+	return map[fem.ItemKind]int{fem.SegmentItem: len(m.Segments), fem.SupportItem: len(m.Supports),
+		fem.PointLoadItem: len(m.PointLoads), fem.DistributedLoadItem: len(m.DistributedLoad), fem.MeshItem: -1, fem.ModelItem: -1}
 }
 
 // modelWideWords are the words a message about the model or the mesh as a
@@ -211,18 +211,19 @@ func checkProblems(t *testing.T, m *fem.Model, err error) {
 	}
 	lists := problemItems(m)
 	for _, p := range ve.Problems {
-		n, known := lists[p.Item]
+		it := p.Item
+		n, known := lists[it.Kind]
 		switch {
 		case !known:
-			t.Errorf("problem about unknown item %q: %q", p.Item, p.Message)
+			t.Errorf("problem about unknown item %v: %q", it.Kind, p.Message)
 		case strings.TrimSpace(p.Message) == "":
-			t.Errorf("%s %d (%s): empty message", p.Item, p.Index, p.Field)
-		case n < 0 && (p.Index != -1 || !modelWideWords.MatchString(p.Message)):
-			t.Errorf("%s problem (index %d) does not say what it is about: %q", p.Item, p.Index, p.Message)
-		case n >= 0 && (p.Index < 0 || p.Index >= n):
-			t.Errorf("%s index %d outside the %d listed: %q", p.Item, p.Index, n, p.Message)
+			t.Errorf("%s %d (%+v): empty message", it.Kind, it.Index, p.Place)
+		case n < 0 && (it.Index != -1 || !modelWideWords.MatchString(p.Message)):
+			t.Errorf("%s problem (index %d) does not say what it is about: %q", it.Kind, it.Index, p.Message)
+		case n >= 0 && (it.Index < 0 || it.Index >= n):
+			t.Errorf("%s index %d outside the %d listed: %q", it.Kind, it.Index, n, p.Message)
 		case n >= 0 && !namesItem(p):
-			t.Errorf("message does not name %s %d: %q", p.Item, p.Index+1, p.Message)
+			t.Errorf("message does not name %s %d: %q", it.Kind, it.Index+1, p.Message)
 		}
 		if !strings.Contains(err.Error(), p.Message) {
 			t.Errorf("the error text leaves out %q", p.Message)
@@ -233,9 +234,9 @@ func checkProblems(t *testing.T, m *fem.Model, err error) {
 // namesItem reports whether the message names its item the way users count,
 // "support 3", or in a pair, "supports 1 and 3", "segment 1 ... segment 2".
 func namesItem(p fem.Problem) bool {
-	number := fmt.Sprint(p.Index + 1)
-	single := regexp.MustCompile(`\b` + p.Item + ` ` + number + `\b`)
-	pair := regexp.MustCompile(`\b` + p.Item + `s \d+ and ` + number + `\b`)
+	number := fmt.Sprint(p.Item.Index + 1)
+	single := regexp.MustCompile(`\b` + p.Item.Kind.String() + ` ` + number + `\b`)
+	pair := regexp.MustCompile(`\b` + p.Item.Kind.String() + `s \d+ and ` + number + `\b`)
 	return single.MatchString(p.Message) || pair.MatchString(p.Message)
 }
 

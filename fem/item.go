@@ -62,3 +62,58 @@ func Features(m *Model) []Feature {
 	}
 	return out
 }
+
+// Property names one property of a model item, as the Go field that holds
+// it: Problem places its message with it, and storage maps it to the file's
+// key. Properties that hold one value per motion or per load point take the
+// motion (Place.Dof) or the point (Place.Vertex) as well.
+type Property int
+
+// Properties of model items, by the item they belong to.
+const (
+	NoProperty Property = iota // the item as a whole
+
+	StartProperty            // Segment.Start
+	EndProperty              // Segment.End
+	AreaProperty             // Segment.Section.Area
+	SecondMomentProperty     // Segment.Section.SecondMoment
+	FibreDistanceProperty    // Segment.Section.FibreDistance
+	ElasticProperty          // Segment.Material.Elastic
+	DensityProperty          // Segment.Material.Density
+	ThermalExpansionProperty // Segment.Material.ThermalExpansion
+	AllowableProperty        // Segment.Material.Allowable
+
+	PositionProperty        // Support.X or PointLoad.X
+	KindProperty            // Support.Kind
+	StiffnessProperty       // Support.Stiffness as a whole
+	MotionStiffnessProperty // Support.Stiffness[Dof]
+	SettlementProperty      // Support.Settlement[Dof]
+
+	AxialForceProperty      // PointLoad.Axial
+	TransverseForceProperty // PointLoad.Transverse
+	MomentProperty          // PointLoad.Moment
+
+	DirectionProperty      // DistributedLoad.Direction
+	PointsProperty         // DistributedLoad.Points as a whole
+	PointXProperty         // DistributedLoad.Points[Vertex].X
+	PointIntensityProperty // DistributedLoad.Points[Vertex].Intensity
+
+	ElementsProperty         // MeshSettings.Elements
+	MaxElementLengthProperty // MeshSettings.MaxElementLength
+	BarOrderProperty         // MeshSettings.BarOrder
+
+	SegmentsProperty          // Model.Segments as a whole
+	GravityProperty           // Model.Gravity[Dof]: Axial for x, Transverse for y
+	TemperatureChangeProperty // Model.TemperatureChange
+)
+
+// Place says where in a model something lies: an item, one of its
+// properties (NoProperty for the item as a whole) and, for the properties
+// that need it, the motion or the load point. Dof and Vertex are zero where
+// the property takes neither, so places compare with ==.
+type Place struct {
+	Item     Item
+	Property Property
+	Dof      Dof // for MotionStiffnessProperty, SettlementProperty and GravityProperty
+	Vertex   int // for PointXProperty and PointIntensityProperty: the 0-based index of the load point
+}

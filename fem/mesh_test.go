@@ -1,48 +1,10 @@
 package fem
 
 import (
-	"errors"
 	"math"
-	"runtime"
 	"strings"
 	"testing"
 )
-
-// bytesPerElement must bound what solving and summarizing allocate per
-// element, or the memory check in Validate would let through meshes that do
-// not fit.
-func TestBytesPerElement(t *testing.T) {
-	if testing.Short() {
-		t.Skip("allocates a large mesh")
-	}
-	for _, order := range []ElementOrder{LinearBar, QuadraticBar} {
-		m := mixedModel(100_000)
-		m.Mesh.BarOrder = order
-		var before, solved, summarized runtime.MemStats
-		runtime.GC()
-		runtime.ReadMemStats(&before)
-		s, err := Solve(m)
-		if err != nil {
-			t.Fatal(err)
-		}
-		runtime.ReadMemStats(&solved)
-		Summarize(s, nil)
-		runtime.ReadMemStats(&summarized)
-		n := float64(len(s.Mesh.Elements))
-		solve := float64(solved.TotalAlloc-before.TotalAlloc) / n
-		both := float64(summarized.TotalAlloc-before.TotalAlloc) / n
-		t.Logf("order %d: Solve allocates %.0f bytes per element, Solve and Summarize %.0f", order, solve, both)
-		if both > bytesPerElement {
-			t.Errorf("order %d: Solve and Summarize allocate %.0f bytes per element, more than bytesPerElement = %d", order, both, bytesPerElement)
-		}
-	}
-	// A billion elements are refused with the memory they would need.
-	m := mixedModel(1_000_000_000)
-	var ve *ValidationError
-	if err := m.Validate(); !errors.As(err, &ve) || !strings.Contains(err.Error(), "the mesh would need about 400.0 GB of memory") {
-		t.Errorf("10⁹ elements: got %v, want the memory refusal", err)
-	}
-}
 
 func TestBuildMesh(t *testing.T) {
 	base := func() *Model {

@@ -7,12 +7,11 @@ import (
 	"strings"
 )
 
-// Problem is one thing wrong with a model.
+// Problem is one thing wrong with a model: where it lies, and a sentence for
+// the user that numbers items from 1.
 type Problem struct {
-	Item    string // "segment", "support", "point load", "distributed load", "mesh" or "model"
-	Index   int    // 0-based index of the item in its list, -1 for the model and the mesh
-	Field   string // the offending field, e.g. "x", "end", "points[2].x", "area"
-	Message string // a sentence for the user, numbering items from 1
+	Place
+	Message string
 }
 
 // ValidationError lists every problem found in a model.
@@ -33,27 +32,74 @@ func (e *ValidationError) Error() string {
 	return b.String()
 }
 
-// Memory limits for a mesh request. Solve allocates about 100 bytes per
-// element and Summarize's sampling about 160 more (TestBytesPerElement); the
-// rest of the margin covers a second solution a caller keeps while the next
-// one is solved.
+// Memory. Validate refuses a model whose analysis would need more than
+// memoryLimit. The estimate counts what every stage allocates per element
+// and per key point, measured by TestMemoryPerStage as the growth of
+// runtime.MemStats.TotalAlloc from one model size to the next, times
+// memoryHeadroom: Go's collector lets the heap grow to twice the live data
+// (GOGC=100), and the application keeps the previous analysis while it
+// solves the next.
 const (
-	memoryLimit     = 8 << 30 // bytes
-	bytesPerElement = 400
+	memoryLimit    = 4 << 30 // bytes for the analysis of one model
+	memoryHeadroom = 4
+
+	// Per element, all stages: Solve, SolveExact, Summarize and Compare
+	// allocated 96 B (the mesh, displacements and element results; from 10⁵
+	// to 2·10⁵ elements, both bar orders). check.Run, outside this package,
+	// allocated nothing per element when measured by hand.
+	stagesBytesPerElement = 100
+	// Per key point, with one element per stretch: Solve allocated at most
+	// 1,552 B (key points from 1,000 to 2,000, made of segment breaks,
+	// supports, point loads or load points), Summarize with the exact
+	// solution at most 590 B (from 125 to 250 key points).
+	solveBytesPerKeyPoint   = 2000
+	summaryBytesPerKeyPoint = 800
+	// The exact solution's system, budgeted for a banded solver: about six
+	// unknowns per stretch, each with a band row of some 17 entries of 8 B,
+	// stored twice (the system and its equilibrated copy), plus the
+	// stretch's own solution (about 220 B). An estimate, not a measurement:
+	// the dense solver in use until then allocates about 1.8 kB per key
+	// point times the number of key points.
+	exactBytesPerKeyPoint = 3000
+
+	bytesPerElement  = memoryHeadroom * stagesBytesPerElement
+	bytesPerKeyPoint = memoryHeadroom * (solveBytesPerKeyPoint + summaryBytesPerKeyPoint + exactBytesPerKeyPoint)
+)
+
+// Stiffness range. The solvers factorize matrices of element stiffnesses
+// (EA/h, 12·EI/h³, … for an element of length h) and spring stiffnesses,
+// and divide loads by them. The band kernels keep their answers over scales
+// of 1e±300 (TestBandLDLScaleInvariance), but a stiffness that underflows to
+// zero or to a subnormal number makes the matrix singular or inexact, and
+// one near overflow leaves no room for the loads and fields computed from
+// it. So every segment's EA/ℓ and EI/ℓ³ (ℓ its length) and every spring
+// stiffness must lie within 1e±150: an element lies within its segment, so
+// its EA/h and EI/h³ are never smaller; stretches down to the merge
+// tolerance (1e-12·L) make them at most 1e36 times larger. That leaves at
+// least 120 decades to either end of float64's normal range (2.2e-308 to
+// 1.8e308) for the arithmetic on them.
+const (
+	minStiffness = 1e-150
+	maxStiffness = 1e150
 )
 
 // mergeTolerance is the distance, relative to L, below which key points are one node.
 const mergeTolerance = 1e-12
 
+var (
+	modelItem = Item{ModelItem, -1}
+	meshItem  = Item{MeshItem, -1}
+)
+
 // Validate checks the model and returns nil or a *ValidationError listing all problems.
 func (m *Model) Validate() error {
 	v := validator{}
 	if m == nil {
-		v.add("model", -1, "", "there is no model")
+		v.add(Place{Item: modelItem}, "there is no model")
 		return v.err()
 	}
 	if len(m.Segments) == 0 {
-		v.add("model", -1, "segments", "the member has no segments: add at least one segment")
+		v.add(Place{Item: modelItem, Property: SegmentsProperty}, "the member has no segments: add at least one segment")
 		return v.err()
 	}
 	L := m.Length()
@@ -66,11 +112,11 @@ func (m *Model) Validate() error {
 	v.distributedLoads(m.DistributedLoad, lengthKnown)
 	for i, g := range m.Gravity {
 		if !isFinite(g) {
-			v.add("model", -1, fmt.Sprintf("gravity[%d]", i), fmt.Sprintf("the gravity component %d is %v: enter a finite value in m/s²", i+1, g))
+			v.add(Place{Item: modelItem, Property: GravityProperty, Dof: Dof(i)}, fmt.Sprintf("the gravity component %d is %v: enter a finite value in m/s²", i+1, g))
 		}
 	}
 	if !isFinite(m.TemperatureChange) {
-		v.add("model", -1, "temperature change", fmt.Sprintf("the temperature change is %v: enter a finite value in K", m.TemperatureChange))
+		v.add(Place{Item: modelItem, Property: TemperatureChangeProperty}, fmt.Sprintf("the temperature change is %v: enter a finite value in K", m.TemperatureChange))
 	}
 	v.mesh(m, lengthKnown)
 	return v.err()
@@ -81,8 +127,8 @@ type validator struct {
 	L, tol   float64
 }
 
-func (v *validator) add(item string, index int, field, msg string) {
-	v.problems = append(v.problems, Problem{Item: item, Index: index, Field: field, Message: msg})
+func (v *validator) add(at Place, msg string) {
+	v.problems = append(v.problems, Problem{Place: at, Message: msg})
 }
 
 func (v *validator) err() error {
@@ -92,77 +138,115 @@ func (v *validator) err() error {
 	return &ValidationError{Problems: v.problems}
 }
 
-// positive reports a property that must be finite and > 0 (or >= 0 when zero is allowed).
-func (v *validator) property(item string, i int, field, name string, value float64, unit string, zeroAllowed bool) {
+// label names an item as users count it, e.g. "support 3".
+func label(it Item) string { return fmt.Sprintf("%s %d", it.Kind, it.Index+1) }
+
+// property reports a property that must be finite and > 0 (or >= 0 when zero is allowed).
+func (v *validator) property(at Place, name string, value float64, unit string, zeroAllowed bool) {
 	switch {
 	case !isFinite(value):
-		v.add(item, i, field, fmt.Sprintf("%s %d: %s is %v: enter a finite value in %s", item, i+1, name, value, unit))
+		v.add(at, fmt.Sprintf("%s: %s is %v: enter a finite value in %s", label(at.Item), name, value, unit))
 	case value < 0 || (value == 0 && !zeroAllowed):
 		want := "positive"
 		if zeroAllowed {
 			want = "zero or positive"
 		}
-		v.add(item, i, field, fmt.Sprintf("%s %d: %s is %s %s: it must be %s", item, i+1, name, fmtNumber(value), unit, want))
+		v.add(at, fmt.Sprintf("%s: %s is %s %s: it must be %s", label(at.Item), name, fmtNumber(value), unit, want))
 	}
 }
 
 func (v *validator) segments(segs []Segment) {
 	for i, s := range segs {
+		it := Item{SegmentItem, i}
 		badEnds := false
 		for _, e := range []struct {
-			field string
-			x     float64
-		}{{"start", s.Start}, {"end", s.End}} {
+			property Property
+			name     string
+			x        float64
+		}{{StartProperty, "start", s.Start}, {EndProperty, "end", s.End}} {
 			if !isFinite(e.x) {
-				v.add("segment", i, e.field, fmt.Sprintf("segment %d: its %s is %v: enter a finite position in m", i+1, e.field, e.x))
+				v.add(Place{Item: it, Property: e.property}, fmt.Sprintf("segment %d: its %s is %v: enter a finite position in m", i+1, e.name, e.x))
 				badEnds = true
 			}
 		}
 		if !badEnds {
 			if s.End <= s.Start {
-				v.add("segment", i, "end", fmt.Sprintf("segment %d runs from x = %s to x = %s: its end must lie beyond its start", i+1, fmtMetres(s.Start), fmtMetres(s.End)))
+				start, end := fmtPair(s.Start, s.End)
+				v.add(Place{Item: it, Property: EndProperty}, fmt.Sprintf("segment %d runs from x = %s m to x = %s m: its end must lie beyond its start", i+1, start, end))
 			}
 			prev := 0.0
 			if i > 0 {
 				prev = segs[i-1].End
 			}
+			start := Place{Item: it, Property: StartProperty}
+			before, here := fmtPair(prev, s.Start)
 			switch d := s.Start - prev; {
 			case i == 0 && math.Abs(d) > v.tol:
-				v.add("segment", i, "start", fmt.Sprintf("segment 1 starts at x = %s: the member must start at x = 0", fmtMetres(s.Start)))
+				v.add(start, fmt.Sprintf("segment 1 starts at x = %s: the member must start at x = 0", fmtMetres(s.Start)))
 			case i > 0 && d > v.tol:
-				v.add("segment", i, "start", fmt.Sprintf("there is a gap between segment %d (ends at x = %s) and segment %d (starts at x = %s): make them meet", i, fmtMetres(prev), i+1, fmtMetres(s.Start)))
+				v.add(start, fmt.Sprintf("there is a gap between segment %d (ends at x = %s m) and segment %d (starts at x = %s m): make them meet", i, before, i+1, here))
 			case i > 0 && d < -v.tol:
-				v.add("segment", i, "start", fmt.Sprintf("segment %d (starts at x = %s) overlaps segment %d (ends at x = %s): make them meet", i+1, fmtMetres(s.Start), i, fmtMetres(prev)))
+				v.add(start, fmt.Sprintf("segment %d (starts at x = %s m) overlaps segment %d (ends at x = %s m): make them meet", i+1, here, i, before))
 			}
 		}
-		v.property("segment", i, "area", "the area A", s.Section.Area, "m²", false)
-		v.property("segment", i, "second moment", "the second moment of area I", s.Section.SecondMoment, "m⁴", false)
-		v.property("segment", i, "fibre distance", "the extreme fibre distance c", s.Section.FibreDistance, "m", false)
-		v.property("segment", i, "elastic", "Young's modulus E", s.Material.Elastic, "Pa", false)
-		v.property("segment", i, "density", "the density", s.Material.Density, "kg/m³", true)
-		v.property("segment", i, "allowable", "the allowable stress", s.Material.Allowable, "Pa", true)
+		at := func(p Property) Place { return Place{Item: it, Property: p} }
+		v.property(at(AreaProperty), "the area A", s.Section.Area, "m²", false)
+		v.property(at(SecondMomentProperty), "the second moment of area I", s.Section.SecondMoment, "m⁴", false)
+		v.property(at(FibreDistanceProperty), "the extreme fibre distance c", s.Section.FibreDistance, "m", false)
+		v.property(at(ElasticProperty), "Young's modulus E", s.Material.Elastic, "Pa", false)
+		v.property(at(DensityProperty), "the density", s.Material.Density, "kg/m³", true)
+		v.property(at(AllowableProperty), "the allowable stress", s.Material.Allowable, "Pa", true)
 		if a := s.Material.ThermalExpansion; !isFinite(a) {
-			v.add("segment", i, "thermal expansion", fmt.Sprintf("segment %d: the thermal expansion coefficient is %v: enter a finite value in 1/K", i+1, a))
+			v.add(at(ThermalExpansionProperty), fmt.Sprintf("segment %d: the thermal expansion coefficient is %v: enter a finite value in 1/K", i+1, a))
+		}
+		v.segmentStiffness(it, s)
+	}
+}
+
+// segmentStiffness keeps the segment's EA/ℓ and EI/ℓ³ within the stiffness
+// range, working in logarithms so that the check itself cannot overflow.
+func (v *validator) segmentStiffness(it Item, s Segment) {
+	E, A, I, l := s.Material.Elastic, s.Section.Area, s.Section.SecondMoment, s.End-s.Start
+	for _, x := range []float64{E, A, I, l} {
+		if !isFinite(x) || x <= 0 {
+			return // reported above
+		}
+	}
+	for _, k := range []struct {
+		name, symbol, factor string
+		log10                float64
+	}{
+		{"axial stiffness", "EA/ℓ", "A = " + fmtNumber(A) + " m²", log10(E) + log10(A) - log10(l)},
+		{"bending stiffness", "EI/ℓ³", "I = " + fmtNumber(I) + " m⁴", log10(E) + log10(I) - 3*log10(l)},
+	} {
+		if k.log10 < log10(minStiffness) || k.log10 > log10(maxStiffness) {
+			v.add(Place{Item: it}, fmt.Sprintf("%s: its %s %s is about %s N/m (E = %s Pa, %s, ℓ = %s), outside the range the solvers work in (%s to %s N/m): check these values and their units",
+				label(it), k.name, k.symbol, fmtPowerOfTen(k.log10), fmtNumber(E), k.factor, fmtMetres(l), fmtNumber(minStiffness), fmtNumber(maxStiffness)))
 		}
 	}
 }
 
+// log10 is math.Log10 that is right for subnormal x too: math.Log on amd64
+// gives about −709 for every x below 2.2e-308 (Go 1.26), math.Log2 does not.
+func log10(x float64) float64 { return math.Log2(x) * math.Log10(2) }
+
 // position checks that x lies on the member; it returns false when x is unusable.
-func (v *validator) position(item string, i int, field, what string, x float64, lengthKnown bool) bool {
+func (v *validator) position(at Place, what string, x float64, lengthKnown bool) bool {
 	if !isFinite(x) {
-		v.add(item, i, field, fmt.Sprintf("%s %d: %s is %v: enter a finite position in m", item, i+1, what, x))
+		v.add(at, fmt.Sprintf("%s: %s is %v: enter a finite position in m", label(at.Item), what, x))
 		return false
 	}
 	if lengthKnown && (x < -v.tol || x > v.L+v.tol) {
-		v.add(item, i, field, fmt.Sprintf("%s %d at x = %s lies outside the member (length %s)", item, i+1, fmtMetres(x), fmtMetres(v.L)))
+		here, length := fmtPair(x, v.L)
+		v.add(at, fmt.Sprintf("%s at x = %s m lies outside the member (length %s m)", label(at.Item), here, length))
 		return false
 	}
 	return true
 }
 
-func (v *validator) finite(item string, i int, field, what string, value float64, unit string) {
+func (v *validator) finite(at Place, what string, value float64, unit string) {
 	if !isFinite(value) {
-		v.add(item, i, field, fmt.Sprintf("%s %d: %s is %v: enter a finite value in %s", item, i+1, what, value, unit))
+		v.add(at, fmt.Sprintf("%s: %s is %v: enter a finite value in %s", label(at.Item), what, value, unit))
 	}
 }
 
@@ -171,39 +255,44 @@ var springUnits = [3]string{"N/m", "N/m", "N·m/rad"}
 
 func (v *validator) supports(sups []Support, lengthKnown bool) {
 	for i, s := range sups {
-		if v.position("support", i, "x", "its position", s.X, lengthKnown) {
+		it := Item{SupportItem, i}
+		if v.position(Place{Item: it, Property: PositionProperty}, "its position", s.X, lengthKnown) {
 			for j := 0; j < i; j++ {
 				if isFinite(sups[j].X) && math.Abs(sups[j].X-s.X) <= v.tol {
-					v.add("support", i, "x", fmt.Sprintf("supports %d and %d are both at x = %s: keep one support per point and choose a kind that restrains all the motions you need", j+1, i+1, fmtMetres(s.X)))
+					v.add(Place{Item: it, Property: PositionProperty}, fmt.Sprintf("supports %d and %d are both at x = %s: keep one support per point and choose a kind that restrains all the motions you need", j+1, i+1, fmtMetres(s.X)))
 					break
 				}
 			}
 		}
 		if s.Kind < Fixed || s.Kind > Spring {
-			v.add("support", i, "kind", fmt.Sprintf("support %d has an unknown kind (%d): choose fixed, pinned, roller, axial, guided or spring", i+1, int(s.Kind)))
+			v.add(Place{Item: it, Property: KindProperty}, fmt.Sprintf("support %d has an unknown kind (%d): choose fixed, pinned, roller, axial, guided or spring", i+1, int(s.Kind)))
 			continue
 		}
 		if s.Kind == Spring {
 			stiff := false
 			for d, k := range s.Stiffness {
-				field := fmt.Sprintf("stiffness[%d]", d)
+				at := Place{Item: it, Property: MotionStiffnessProperty, Dof: Dof(d)}
 				switch {
 				case !isFinite(k):
-					v.add("support", i, field, fmt.Sprintf("support %d: the %s spring stiffness is %v: enter a finite value in %s", i+1, Dof(d), k, springUnits[d]))
+					v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %v: enter a finite value in %s", i+1, Dof(d), k, springUnits[d]))
 				case k < 0:
-					v.add("support", i, field, fmt.Sprintf("support %d: the %s spring stiffness is %s %s: it must not be negative", i+1, Dof(d), fmtNumber(k), springUnits[d]))
+					v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %s %s: it must not be negative", i+1, Dof(d), fmtNumber(k), springUnits[d]))
+				case k > 0 && (k < minStiffness || k > maxStiffness):
+					v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %s %s, outside the range the solvers work in (%s to %s %s): enter a stiffness in that range, 0 to leave the motion free, or a rigid support kind to hold it",
+						i+1, Dof(d), fmtNumber(k), springUnits[d], fmtNumber(minStiffness), fmtNumber(maxStiffness), springUnits[d]))
+					stiff = true
 				case k > 0:
 					stiff = true
 				}
 			}
 			if !stiff {
-				v.add("support", i, "stiffness", fmt.Sprintf("support %d is a spring with no stiffness in any direction: give at least one positive stiffness or remove it", i+1))
+				v.add(Place{Item: it, Property: StiffnessProperty}, fmt.Sprintf("support %d is a spring with no stiffness in any direction: give at least one positive stiffness or remove it", i+1))
 			}
 			continue
 		}
 		for d := Axial; d <= Rotation; d++ {
 			if s.Kind.Restrains(d) {
-				v.finite("support", i, fmt.Sprintf("settlement[%d]", d), fmt.Sprintf("the %s settlement", d), s.Settlement[d], dofUnits[d])
+				v.finite(Place{Item: it, Property: SettlementProperty, Dof: d}, fmt.Sprintf("the %s settlement", d), s.Settlement[d], dofUnits[d])
 			}
 		}
 	}
@@ -211,34 +300,37 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 
 func (v *validator) pointLoads(loads []PointLoad, lengthKnown bool) {
 	for i, p := range loads {
-		v.position("point load", i, "x", "its position", p.X, lengthKnown)
-		v.finite("point load", i, "axial", "the axial force", p.Axial, "N")
-		v.finite("point load", i, "transverse", "the transverse force", p.Transverse, "N")
-		v.finite("point load", i, "moment", "the moment", p.Moment, "N·m")
+		at := func(p Property) Place { return Place{Item: Item{PointLoadItem, i}, Property: p} }
+		v.position(at(PositionProperty), "its position", p.X, lengthKnown)
+		v.finite(at(AxialForceProperty), "the axial force", p.Axial, "N")
+		v.finite(at(TransverseForceProperty), "the transverse force", p.Transverse, "N")
+		v.finite(at(MomentProperty), "the moment", p.Moment, "N·m")
 	}
 }
 
 func (v *validator) distributedLoads(loads []DistributedLoad, lengthKnown bool) {
-	const item = "distributed load"
 	for i, d := range loads {
+		it := Item{DistributedLoadItem, i}
 		if d.Direction != Axial && d.Direction != Transverse {
-			v.add(item, i, "direction", fmt.Sprintf("distributed load %d acts in direction %d: choose axial or transverse", i+1, int(d.Direction)))
+			v.add(Place{Item: it, Property: DirectionProperty}, fmt.Sprintf("distributed load %d acts in direction %d: choose axial or transverse", i+1, int(d.Direction)))
 		}
+		points := Place{Item: it, Property: PointsProperty}
 		if len(d.Points) < 2 {
-			v.add(item, i, "points", fmt.Sprintf("distributed load %d has %d point(s): give at least a start and an end point", i+1, len(d.Points)))
+			v.add(points, fmt.Sprintf("distributed load %d has %d point(s): give at least a start and an end point", i+1, len(d.Points)))
 			continue
 		}
 		usable := true
 		for j, p := range d.Points {
-			field := fmt.Sprintf("points[%d]", j)
+			x := Place{Item: it, Property: PointXProperty, Vertex: j}
 			if !isFinite(p.X) {
-				v.add(item, i, field+".x", fmt.Sprintf("distributed load %d: point %d has position %v: enter a finite position in m", i+1, j+1, p.X))
+				v.add(x, fmt.Sprintf("distributed load %d: point %d has position %v: enter a finite position in m", i+1, j+1, p.X))
 				usable = false
 			} else if lengthKnown && (p.X < -v.tol || p.X > v.L+v.tol) {
-				v.add(item, i, field+".x", fmt.Sprintf("distributed load %d: point %d at x = %s lies outside the member (length %s)", i+1, j+1, fmtMetres(p.X), fmtMetres(v.L)))
+				here, length := fmtPair(p.X, v.L)
+				v.add(x, fmt.Sprintf("distributed load %d: point %d at x = %s m lies outside the member (length %s m)", i+1, j+1, here, length))
 			}
 			if !isFinite(p.Intensity) {
-				v.add(item, i, field+".intensity", fmt.Sprintf("distributed load %d: point %d has intensity %v: enter a finite value in N/m", i+1, j+1, p.Intensity))
+				v.add(Place{Item: it, Property: PointIntensityProperty, Vertex: j}, fmt.Sprintf("distributed load %d: point %d has intensity %v: enter a finite value in N/m", i+1, j+1, p.Intensity))
 			}
 		}
 		if !usable {
@@ -246,12 +338,13 @@ func (v *validator) distributedLoads(loads []DistributedLoad, lengthKnown bool) 
 		}
 		first, last := d.Points[0].X, d.Points[len(d.Points)-1].X
 		if math.Abs(last-first) <= v.tol {
-			v.add(item, i, "points", fmt.Sprintf("distributed load %d starts and ends at x = %s: give it a length", i+1, fmtMetres(first)))
+			v.add(points, fmt.Sprintf("distributed load %d starts and ends at x = %s: give it a length", i+1, fmtMetres(first)))
 			continue
 		}
 		for j := 1; j < len(d.Points); j++ {
 			if d.Points[j].X-d.Points[j-1].X <= v.tol {
-				v.add(item, i, fmt.Sprintf("points[%d].x", j), fmt.Sprintf("distributed load %d: point %d (x = %s) does not lie beyond point %d (x = %s): list the points in increasing x without repeats", i+1, j+1, fmtMetres(d.Points[j].X), j, fmtMetres(d.Points[j-1].X)))
+				here, before := fmtPair(d.Points[j].X, d.Points[j-1].X)
+				v.add(Place{Item: it, Property: PointXProperty, Vertex: j}, fmt.Sprintf("distributed load %d: point %d (x = %s m) does not lie beyond point %d (x = %s m): list the points in increasing x without repeats", i+1, j+1, here, j, before))
 				break
 			}
 		}
@@ -261,40 +354,119 @@ func (v *validator) distributedLoads(loads []DistributedLoad, lengthKnown bool) 
 func (v *validator) mesh(m *Model, lengthKnown bool) {
 	ms := m.Mesh
 	if ms.Elements < 0 {
-		v.add("mesh", -1, "elements", fmt.Sprintf("the mesh asks for %d elements: give zero (automatic) or a positive number", ms.Elements))
+		v.add(Place{Item: meshItem, Property: ElementsProperty}, fmt.Sprintf("the mesh asks for %d elements: give zero (automatic) or a positive number", ms.Elements))
 	}
 	if h := ms.MaxElementLength; !isFinite(h) || h < 0 {
-		v.add("mesh", -1, "max element length", fmt.Sprintf("the maximum element length is %v m: give zero (no limit) or a positive length", h))
+		v.add(Place{Item: meshItem, Property: MaxElementLengthProperty}, fmt.Sprintf("the maximum element length is %v m: give zero (no limit) or a positive length", h))
 	}
 	if ms.BarOrder != 0 && ms.BarOrder != LinearBar && ms.BarOrder != QuadraticBar {
-		v.add("mesh", -1, "bar order", fmt.Sprintf("the bar element order is %d: choose 1 (linear) or 2 (quadratic)", int(ms.BarOrder)))
+		v.add(Place{Item: meshItem, Property: BarOrderProperty}, fmt.Sprintf("the bar element order is %d: choose 1 (linear) or 2 (quadratic)", int(ms.BarOrder)))
 	}
-	if !lengthKnown {
+	if lengthKnown {
+		v.memory(m)
+	}
+}
+
+// memory refuses a model whose analysis would not fit in memoryLimit:
+// blaming the key points when they do not fit even with one element per
+// stretch, else the elements.
+func (v *validator) memory(m *Model) {
+	// Upper bounds before the key points are merged and the mesh is built:
+	// every end, break, support, point load and load point a key point, and
+	// every stretch between them at least one element more than its share.
+	keys := float64(2 + 2*len(m.Segments) + len(m.Supports) + len(m.PointLoads))
+	for _, d := range m.DistributedLoad {
+		keys += float64(len(d.Points))
+	}
+	elements := float64(max(m.Mesh.Elements, 0)) + keys
+	if h := m.Mesh.MaxElementLength; isFinite(h) && h > 0 {
+		elements += math.Ceil(v.L / h) // +Inf when L/h overflows
+	}
+	elementBytes, keyBytes := elements*bytesPerElement, keys*bytesPerKeyPoint
+	need := elementBytes + keyBytes
+	if need <= memoryLimit {
 		return
 	}
-	// An upper bound on the element count, before the key points are known.
-	count := float64(max(ms.Elements, 0)) + float64(2+2*len(m.Segments)+len(m.Supports)+len(m.PointLoads))
-	for _, d := range m.DistributedLoad {
-		count += float64(len(d.Points))
+	limit := fmtGigabytes(memoryLimit)
+	if least := keys * (bytesPerKeyPoint + bytesPerElement); least > memoryLimit { // too much even with one element per stretch
+		v.add(Place{Item: modelItem}, fmt.Sprintf("the model would need at least %s of memory for its %.3g key points (ends and breaks of segments, supports, point loads and load points), more than the %s allowed: use fewer supports, point loads and load points, or split the member into several models (up to about %.3g key points fit)",
+			fmtGigabytes(least), keys, limit, math.Floor(memoryLimit/(bytesPerKeyPoint+bytesPerElement))))
+		return
 	}
-	if h := ms.MaxElementLength; isFinite(h) && h > 0 {
-		count += math.Ceil(v.L / h)
+	fit := math.Floor((memoryLimit - keyBytes) / bytesPerElement)
+	if !isFinite(need) {
+		v.add(Place{Item: meshItem, Property: ElementsProperty}, fmt.Sprintf("the mesh would need more than %s of memory (over %s elements), far more than the %s allowed: ask for fewer elements or a longer maximum element length (up to about %.3g elements fit)",
+			fmtGigabytes(floorPowerOfTen(math.MaxFloat64)), fmtNumber(floorPowerOfTen(math.MaxFloat64/bytesPerElement)), limit, fit))
+		return
 	}
-	if need := count * bytesPerElement; need > memoryLimit/2 {
-		v.add("mesh", -1, "elements", fmt.Sprintf("the mesh would need about %.1f GB of memory (%.3g elements), more than the %.0f GB allowed: ask for fewer elements or a longer maximum element length", need/1e9, count, memoryLimit/2/1e9))
-	}
+	v.add(Place{Item: meshItem, Property: ElementsProperty}, fmt.Sprintf("the mesh would need about %s of memory (%.3g elements), more than the %s allowed: ask for fewer elements or a longer maximum element length (up to about %.3g elements fit)",
+		fmtGigabytes(need), elements, limit, fit))
 }
 
 func isFinite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 
-// fmtNumber prints a value with up to six significant digits and at least one decimal.
-func fmtNumber(x float64) string {
-	s := strconv.FormatFloat(x, 'g', 6, 64)
+// fmtNumber prints a value with up to six significant digits and at least
+// one decimal: the shortest form that reads back as x when it has six digits
+// or fewer (5e-324, not 4.94066e-324), else x rounded to six.
+func fmtNumber(x float64) string { return fmtDigits(x, 6) }
+
+// fmtDigits is fmtNumber with up to digits significant digits.
+func fmtDigits(x float64, digits int) string {
+	s := strconv.FormatFloat(x, 'g', -1, 64)
+	if significantDigits(s) > digits {
+		s = strconv.FormatFloat(x, 'g', digits, 64)
+	}
 	if !strings.ContainsAny(s, ".eEn") { // n: NaN, Inf
 		s += ".0"
 	}
 	return s
 }
 
+// significantDigits counts the digits of a formatted number's mantissa,
+// leading zeros left out.
+func significantDigits(s string) int {
+	if i := strings.IndexAny(s, "eE"); i >= 0 {
+		s = s[:i]
+	}
+	s = strings.TrimLeft(s, "+-0.")
+	return len(strings.ReplaceAll(s, ".", ""))
+}
+
+// fmtPair prints two values with the fewest significant digits, six or
+// more, that tell them apart, so that a gap of 1e-9 m between 2 m and
+// 2.000000001 m shows.
+func fmtPair(a, b float64) (string, string) {
+	for digits := 6; ; digits++ {
+		sa, sb := fmtDigits(a, digits), fmtDigits(b, digits)
+		if sa != sb || a == b || digits >= 17 { // 17 digits tell any two float64 apart
+			return sa, sb
+		}
+	}
+}
+
 // fmtMetres prints a position for messages, e.g. "3.2 m".
 func fmtMetres(x float64) string { return fmtNumber(x) + " m" }
+
+// fmtPowerOfTen prints 10^e, for e = log10 of a value that may lie outside
+// float64's range, with two significant digits, e.g. "1.6e-326".
+func fmtPowerOfTen(e float64) string {
+	exponent := math.Floor(e)
+	mantissa := math.Round(math.Pow(10, e-exponent)*10) / 10
+	if mantissa >= 10 {
+		mantissa, exponent = 1, exponent+1
+	}
+	return strconv.FormatFloat(mantissa, 'g', -1, 64) + "e" + fmt.Sprintf("%+03.0f", exponent)
+}
+
+// floorPowerOfTen is the largest power of ten not above x > 0.
+func floorPowerOfTen(x float64) float64 { return math.Pow(10, math.Floor(math.Log10(x))) }
+
+// fmtGigabytes prints a number of bytes in GB (10⁹ bytes): one decimal up
+// to 1,000 GB, then three significant digits.
+func fmtGigabytes(bytes float64) string {
+	gb := bytes / 1e9
+	if gb < 1000 {
+		return fmt.Sprintf("%.1f GB", gb)
+	}
+	return fmt.Sprintf("%.3g GB", gb)
+}

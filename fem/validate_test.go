@@ -3,6 +3,7 @@ package fem
 import (
 	"errors"
 	"math"
+	"runtime"
 	"strings"
 	"testing"
 )
@@ -18,58 +19,144 @@ func validModel() *Model {
 	}
 }
 
+// place is the place of property p of item i of a kind.
+func place(kind ItemKind, i int, p Property) Place { return Place{Item: Item{kind, i}, Property: p} }
+
+// validationCase edits validModel and expects a problem at place whose message holds text.
+type validationCase struct {
+	name  string
+	edit  func(m *Model)
+	place Place
+	text  string // part of the message
+}
+
 func TestValidate(t *testing.T) {
 	nan, inf := math.NaN(), math.Inf(1)
-	cases := []struct {
-		name  string
-		edit  func(m *Model)
-		item  string
-		index int
-		field string
-		text  string // part of the message
-	}{
-		{"no segments", func(m *Model) { m.Segments = nil }, "model", -1, "segments", "the member has no segments"},
-		{"zero length segment", func(m *Model) { m.Segments[1].End = 1 }, "segment", 1, "end", "segment 2 runs from x = 1.0 m to x = 1.0 m"},
-		{"negative E", func(m *Model) { m.Segments[0].Material.Elastic = -2e11 }, "segment", 0, "elastic", "segment 1: Young's modulus E is -2e+11 Pa: it must be positive"},
-		{"zero area", func(m *Model) { m.Segments[0].Section.Area = 0 }, "segment", 0, "area", "the area A is 0.0 m²"},
-		{"zero I", func(m *Model) { m.Segments[1].Section.SecondMoment = 0 }, "segment", 1, "second moment", "segment 2: the second moment of area I"},
-		{"negative c", func(m *Model) { m.Segments[1].Section.FibreDistance = -0.1 }, "segment", 1, "fibre distance", "extreme fibre distance c is -0.1 m"},
-		{"NaN E", func(m *Model) { m.Segments[0].Material.Elastic = nan }, "segment", 0, "elastic", "is NaN: enter a finite value in Pa"},
-		{"negative density", func(m *Model) { m.Segments[0].Material.Density = -1 }, "segment", 0, "density", "must be zero or positive"},
-		{"negative allowable", func(m *Model) { m.Segments[0].Material.Allowable = -1 }, "segment", 0, "allowable", "the allowable stress is -1.0 Pa"},
-		{"infinite expansion", func(m *Model) { m.Segments[0].Material.ThermalExpansion = inf }, "segment", 0, "thermal expansion", "thermal expansion coefficient is +Inf"},
-		{"does not start at 0", func(m *Model) { m.Segments[0].Start = 0.5 }, "segment", 0, "start", "segment 1 starts at x = 0.5 m: the member must start at x = 0"},
-		{"gap", func(m *Model) { m.Segments[1].Start = 1.2 }, "segment", 1, "start", "there is a gap between segment 1"},
-		{"overlap", func(m *Model) { m.Segments[1].Start = 0.8 }, "segment", 1, "start", "segment 2 (starts at x = 0.8 m) overlaps segment 1"},
-		{"segment end NaN", func(m *Model) { m.Segments[0].End = nan }, "segment", 0, "end", "segment 1: its end is NaN"},
-		{"support outside", func(m *Model) { m.Supports[1].X = 3.2 }, "support", 1, "x", "support 2 at x = 3.2 m lies outside the member (length 3.0 m)"},
-		{"support NaN", func(m *Model) { m.Supports[0].X = nan }, "support", 0, "x", "support 1: its position is NaN"},
-		{"two supports at one point", func(m *Model) { m.Supports[1].X = 0 }, "support", 1, "x", "supports 1 and 2 are both at x = 0.0 m"},
-		{"unknown kind", func(m *Model) { m.Supports[0].Kind = 17 }, "support", 0, "kind", "support 1 has an unknown kind (17)"},
-		{"negative spring", func(m *Model) { m.Supports[1] = Support{X: 3, Kind: Spring, Stiffness: [3]float64{0, -5, 0}} }, "support", 1, "stiffness[1]", "transverse spring stiffness is -5.0 N/m"},
-		{"spring without stiffness", func(m *Model) { m.Supports[1] = Support{X: 3, Kind: Spring} }, "support", 1, "stiffness", "support 2 is a spring with no stiffness"},
-		{"NaN settlement", func(m *Model) { m.Supports[0].Settlement[Transverse] = nan }, "support", 0, "settlement[1]", "the transverse settlement is NaN"},
-		{"point load outside", func(m *Model) { m.PointLoads[0].X = -1 }, "point load", 0, "x", "point load 1 at x = -1.0 m lies outside the member"},
-		{"point load infinite", func(m *Model) { m.PointLoads[0].Moment = inf }, "point load", 0, "moment", "the moment is +Inf"},
-		{"one load point", func(m *Model) { m.DistributedLoad[0].Points = m.DistributedLoad[0].Points[:1] }, "distributed load", 0, "points", "distributed load 1 has 1 point(s)"},
-		{"zero span", func(m *Model) { m.DistributedLoad[0].Points[1].X = 0 }, "distributed load", 0, "points", "starts and ends at x = 0.0 m"},
+	checkValidation(t, []validationCase{
+		{"no segments", func(m *Model) { m.Segments = nil }, place(ModelItem, -1, SegmentsProperty), "the member has no segments"},
+		{"zero length segment", func(m *Model) { m.Segments[1].End = 1 }, place(SegmentItem, 1, EndProperty), "segment 2 runs from x = 1.0 m to x = 1.0 m"},
+		{"negative E", func(m *Model) { m.Segments[0].Material.Elastic = -2e11 }, place(SegmentItem, 0, ElasticProperty), "segment 1: Young's modulus E is -2e+11 Pa: it must be positive"},
+		{"zero area", func(m *Model) { m.Segments[0].Section.Area = 0 }, place(SegmentItem, 0, AreaProperty), "the area A is 0.0 m²"},
+		{"zero I", func(m *Model) { m.Segments[1].Section.SecondMoment = 0 }, place(SegmentItem, 1, SecondMomentProperty), "segment 2: the second moment of area I"},
+		{"negative c", func(m *Model) { m.Segments[1].Section.FibreDistance = -0.1 }, place(SegmentItem, 1, FibreDistanceProperty), "extreme fibre distance c is -0.1 m"},
+		{"NaN E", func(m *Model) { m.Segments[0].Material.Elastic = nan }, place(SegmentItem, 0, ElasticProperty), "is NaN: enter a finite value in Pa"},
+		{"negative density", func(m *Model) { m.Segments[0].Material.Density = -1 }, place(SegmentItem, 0, DensityProperty), "must be zero or positive"},
+		{"negative allowable", func(m *Model) { m.Segments[0].Material.Allowable = -1 }, place(SegmentItem, 0, AllowableProperty), "the allowable stress is -1.0 Pa"},
+		{"infinite expansion", func(m *Model) { m.Segments[0].Material.ThermalExpansion = inf }, place(SegmentItem, 0, ThermalExpansionProperty), "thermal expansion coefficient is +Inf"},
+		{"does not start at 0", func(m *Model) { m.Segments[0].Start = 0.5 }, place(SegmentItem, 0, StartProperty), "segment 1 starts at x = 0.5 m: the member must start at x = 0"},
+		{"gap", func(m *Model) { m.Segments[1].Start = 1.2 }, place(SegmentItem, 1, StartProperty), "there is a gap between segment 1"},
+		{"overlap", func(m *Model) { m.Segments[1].Start = 0.8 }, place(SegmentItem, 1, StartProperty), "segment 2 (starts at x = 0.8 m) overlaps segment 1"},
+		{"segment end NaN", func(m *Model) { m.Segments[0].End = nan }, place(SegmentItem, 0, EndProperty), "segment 1: its end is NaN"},
+		{"support outside", func(m *Model) { m.Supports[1].X = 3.2 }, place(SupportItem, 1, PositionProperty), "support 2 at x = 3.2 m lies outside the member (length 3.0 m)"},
+		{"support NaN", func(m *Model) { m.Supports[0].X = nan }, place(SupportItem, 0, PositionProperty), "support 1: its position is NaN"},
+		{"two supports at one point", func(m *Model) { m.Supports[1].X = 0 }, place(SupportItem, 1, PositionProperty), "supports 1 and 2 are both at x = 0.0 m"},
+		{"unknown kind", func(m *Model) { m.Supports[0].Kind = 17 }, place(SupportItem, 0, KindProperty), "support 1 has an unknown kind (17)"},
+		{"negative spring", func(m *Model) { m.Supports[1] = Support{X: 3, Kind: Spring, Stiffness: [3]float64{0, -5, 0}} }, Place{Item: Item{SupportItem, 1}, Property: MotionStiffnessProperty, Dof: Transverse}, "transverse spring stiffness is -5.0 N/m"},
+		{"spring without stiffness", func(m *Model) { m.Supports[1] = Support{X: 3, Kind: Spring} }, place(SupportItem, 1, StiffnessProperty), "support 2 is a spring with no stiffness"},
+		{"NaN settlement", func(m *Model) { m.Supports[0].Settlement[Transverse] = nan }, Place{Item: Item{SupportItem, 0}, Property: SettlementProperty, Dof: Transverse}, "the transverse settlement is NaN"},
+		{"point load outside", func(m *Model) { m.PointLoads[0].X = -1 }, place(PointLoadItem, 0, PositionProperty), "point load 1 at x = -1.0 m lies outside the member"},
+		{"point load infinite", func(m *Model) { m.PointLoads[0].Moment = inf }, place(PointLoadItem, 0, MomentProperty), "the moment is +Inf"},
+		{"one load point", func(m *Model) { m.DistributedLoad[0].Points = m.DistributedLoad[0].Points[:1] }, place(DistributedLoadItem, 0, PointsProperty), "distributed load 1 has 1 point(s)"},
+		{"zero span", func(m *Model) { m.DistributedLoad[0].Points[1].X = 0 }, place(DistributedLoadItem, 0, PointsProperty), "starts and ends at x = 0.0 m"},
 		{"unsorted points", func(m *Model) {
 			m.DistributedLoad[0].Points = []LoadPoint{{0, 1}, {2, 1}, {1, 1}, {3, 1}}
-		}, "distributed load", 0, "points[2].x", "point 3 (x = 1.0 m) does not lie beyond point 2"},
+		}, Place{Item: Item{DistributedLoadItem, 0}, Property: PointXProperty, Vertex: 2}, "point 3 (x = 1.0 m) does not lie beyond point 2"},
 		{"duplicate points", func(m *Model) {
 			m.DistributedLoad[0].Points = []LoadPoint{{0, 1}, {1, 1}, {1, 2}, {3, 1}}
-		}, "distributed load", 0, "points[2].x", "list the points in increasing x without repeats"},
-		{"load point outside", func(m *Model) { m.DistributedLoad[0].Points[1].X = 4 }, "distributed load", 0, "points[1].x", "point 2 at x = 4.0 m lies outside"},
-		{"load intensity NaN", func(m *Model) { m.DistributedLoad[0].Points[0].Intensity = nan }, "distributed load", 0, "points[0].intensity", "intensity NaN"},
-		{"bad direction", func(m *Model) { m.DistributedLoad[0].Direction = Rotation }, "distributed load", 0, "direction", "choose axial or transverse"},
-		{"gravity NaN", func(m *Model) { m.Gravity[1] = nan }, "model", -1, "gravity[1]", "the gravity component 2 is NaN"},
-		{"temperature infinite", func(m *Model) { m.TemperatureChange = -inf }, "model", -1, "temperature change", "temperature change is -Inf"},
-		{"negative element count", func(m *Model) { m.Mesh.Elements = -3 }, "mesh", -1, "elements", "the mesh asks for -3 elements"},
-		{"negative element length", func(m *Model) { m.Mesh.MaxElementLength = -0.1 }, "mesh", -1, "max element length", "maximum element length is -0.1 m"},
-		{"bad bar order", func(m *Model) { m.Mesh.BarOrder = 3 }, "mesh", -1, "bar order", "the bar element order is 3"},
-		{"too many elements", func(m *Model) { m.Mesh.Elements = 2_000_000_000 }, "mesh", -1, "elements", "the mesh would need about 800.0 GB"},
-		{"too short elements", func(m *Model) { m.Mesh.MaxElementLength = 1e-9 }, "mesh", -1, "elements", "ask for fewer elements or a longer maximum element length"},
+		}, Place{Item: Item{DistributedLoadItem, 0}, Property: PointXProperty, Vertex: 2}, "list the points in increasing x without repeats"},
+		{"load point outside", func(m *Model) { m.DistributedLoad[0].Points[1].X = 4 }, Place{Item: Item{DistributedLoadItem, 0}, Property: PointXProperty, Vertex: 1}, "point 2 at x = 4.0 m lies outside"},
+		{"load intensity NaN", func(m *Model) { m.DistributedLoad[0].Points[0].Intensity = nan }, Place{Item: Item{DistributedLoadItem, 0}, Property: PointIntensityProperty, Vertex: 0}, "intensity NaN"},
+		{"bad direction", func(m *Model) { m.DistributedLoad[0].Direction = Rotation }, place(DistributedLoadItem, 0, DirectionProperty), "choose axial or transverse"},
+		{"gravity NaN", func(m *Model) { m.Gravity[1] = nan }, Place{Item: Item{ModelItem, -1}, Property: GravityProperty, Dof: Transverse}, "the gravity component 2 is NaN"},
+		{"temperature infinite", func(m *Model) { m.TemperatureChange = -inf }, place(ModelItem, -1, TemperatureChangeProperty), "temperature change is -Inf"},
+		{"negative element count", func(m *Model) { m.Mesh.Elements = -3 }, place(MeshItem, -1, ElementsProperty), "the mesh asks for -3 elements"},
+		{"negative element length", func(m *Model) { m.Mesh.MaxElementLength = -0.1 }, place(MeshItem, -1, MaxElementLengthProperty), "maximum element length is -0.1 m"},
+		{"bad bar order", func(m *Model) { m.Mesh.BarOrder = 3 }, place(MeshItem, -1, BarOrderProperty), "the bar element order is 3"},
+		{"too many elements", func(m *Model) { m.Mesh.Elements = 2_000_000_000 }, place(MeshItem, -1, ElementsProperty), "the mesh would need about 800.0 GB"},
+		{"too short elements", func(m *Model) { m.Mesh.MaxElementLength = 1e-9 }, place(MeshItem, -1, ElementsProperty), "ask for fewer elements or a longer maximum element length"},
+	})
+}
+
+// Hostile but finite input: numbers that print alike, values at the edges
+// of float64, requests beyond the machine.
+func TestValidateHostileInput(t *testing.T) {
+	checkValidation(t, []validationCase{
+		// A gap of 1e-9 m shows in the digits printed.
+		{"gap of a nanometre", func(m *Model) { m.Segments[1].Start = 1 + 1e-9 }, place(SegmentItem, 1, StartProperty),
+			"there is a gap between segment 1 (ends at x = 1.0 m) and segment 2 (starts at x = 1.000000001 m)"},
+		{"overlap of a nanometre", func(m *Model) { m.Segments[1].Start = 1 - 1e-9 }, place(SegmentItem, 1, StartProperty),
+			"segment 2 (starts at x = 0.999999999 m) overlaps segment 1 (ends at x = 1.0 m)"},
+		{"segment ending a nanometre before its start", func(m *Model) {
+			m.Segments[0].End, m.Segments[1].Start = 2, 2
+			m.Segments[1].End = 2 - 1e-9
+		}, place(SegmentItem, 1, EndProperty), "segment 2 runs from x = 2.0 m to x = 1.999999999 m"},
+		{"support a nanometre past the end", func(m *Model) { m.Supports[1].X = 3 + 1e-9 }, place(SupportItem, 1, PositionProperty),
+			"support 2 at x = 3.000000001 m lies outside the member (length 3.0 m)"},
+		{"load point a nanometre past the end", func(m *Model) { m.DistributedLoad[0].Points[1].X = 3 + 1e-9 },
+			Place{Item: Item{DistributedLoadItem, 0}, Property: PointXProperty, Vertex: 1}, "point 2 at x = 3.000000001 m lies outside the member (length 3.0 m)"},
+		{"load points a nanometre out of order", func(m *Model) {
+			m.DistributedLoad[0].Points = []LoadPoint{{0, 1}, {2, 1}, {2 - 1e-9, 1}, {3, 1}}
+		}, Place{Item: Item{DistributedLoadItem, 0}, Property: PointXProperty, Vertex: 2}, "point 3 (x = 1.999999999 m) does not lie beyond point 2 (x = 2.0 m)"},
+		// The smallest float64 prints as the value it reads back as.
+		{"negative subnormal area", func(m *Model) { m.Segments[0].Section.Area = -math.SmallestNonzeroFloat64 }, place(SegmentItem, 0, AreaProperty),
+			"the area A is -5e-324 m²: it must be positive"},
+		{"negative subnormal spring", func(m *Model) {
+			m.Supports[1] = Support{X: 3, Kind: Spring, Stiffness: [3]float64{1e6, -math.SmallestNonzeroFloat64, 0}}
+		}, Place{Item: Item{SupportItem, 1}, Property: MotionStiffnessProperty, Dof: Transverse}, "the transverse spring stiffness is -5e-324 N/m"},
+		// Stiffnesses that underflow or overflow are refused before a solver
+		// finds its matrix singular and blames springs or close supports.
+		// By hand: 2e11·0.005/1e300 = 1e-291; 4.94e-324·0.005/1 = 2.5e-326;
+		// 2e11·1e160/2³ = 2.5e170.
+		{"member 1e300 m long", func(m *Model) { m.Segments[1].End = 1e300 }, place(SegmentItem, 1, NoProperty),
+			"segment 2: its axial stiffness EA/ℓ is about 1e-291 N/m (E = 2e+11 Pa, A = 0.005 m², ℓ = 1e+300 m), outside the range the solvers work in (1e-150 to 1e+150 N/m): check these values and their units"},
+		{"E of 5e-324 Pa", func(m *Model) { m.Segments[0].Material.Elastic = math.SmallestNonzeroFloat64 }, place(SegmentItem, 0, NoProperty),
+			"segment 1: its axial stiffness EA/ℓ is about 2.5e-326 N/m (E = 5e-324 Pa, A = 0.005 m², ℓ = 1.0 m), outside the range the solvers work in (1e-150 to 1e+150 N/m): check these values and their units"},
+		{"I of 1e160 m⁴", func(m *Model) { m.Segments[1].Section.SecondMoment = 1e160 }, place(SegmentItem, 1, NoProperty),
+			"segment 2: its bending stiffness EI/ℓ³ is about 2.5e+170 N/m (E = 2e+11 Pa, I = 1e+160 m⁴, ℓ = 2.0 m)"},
+		{"spring of 5e-324 N/m", func(m *Model) {
+			m.Supports[1] = Support{X: 3, Kind: Spring, Stiffness: [3]float64{1e6, math.SmallestNonzeroFloat64, 0}}
+		},
+			Place{Item: Item{SupportItem, 1}, Property: MotionStiffnessProperty, Dof: Transverse},
+			"support 2: the transverse spring stiffness is 5e-324 N/m, outside the range the solvers work in (1e-150 to 1e+150 N/m): enter a stiffness in that range, 0 to leave the motion free, or a rigid support kind to hold it"},
+		{"spring of 1e200 N·m/rad", func(m *Model) { m.Supports[1] = Support{X: 3, Kind: Spring, Stiffness: [3]float64{1e6, 1e6, 1e200}} },
+			Place{Item: Item{SupportItem, 1}, Property: MotionStiffnessProperty, Dof: Rotation},
+			"support 2: the rotation spring stiffness is 1e+200 N·m/rad, outside the range the solvers work in (1e-150 to 1e+150 N·m/rad)"},
+		// Requests beyond the machine are refused with the estimate, the
+		// limit and what fits. validModel has 12 key points at most (2 ends,
+		// 4 segment ends, 2 supports, 1 point load, 2 load points, rounded
+		// up by one end), so its elements dominate: 400 B each.
+		{"element length of 5e-324 m", func(m *Model) { m.Mesh.MaxElementLength = math.SmallestNonzeroFloat64 }, place(MeshItem, -1, ElementsProperty),
+			"the mesh would need more than 1e+299 GB of memory (over 1e+305 elements), far more than the 4.3 GB allowed: ask for fewer elements or a longer maximum element length (up to about 1.07e+07 elements fit)"},
+		{"element length of 1e-300 m", func(m *Model) { m.Mesh.MaxElementLength = 1e-300 }, place(MeshItem, -1, ElementsProperty),
+			"the mesh would need about 1.2e+294 GB of memory (3e+300 elements)"},
+		{"a trillion elements", func(m *Model) { m.Mesh.Elements = 1e12 }, place(MeshItem, -1, ElementsProperty),
+			"the mesh would need about 4e+05 GB of memory (1e+12 elements), more than the 4.3 GB allowed: ask for fewer elements or a longer maximum element length (up to about 1.07e+07 elements fit)"},
+		// Key points count too, at 23,200 B each and one element (400 B) per
+		// stretch: 300,000 point loads need at least 300,012 × 23,600 B =
+		// 7.08 GB; 4,294,967,296 / 23,600 = 181,990 key points fit.
+		{"300,000 point loads", func(m *Model) { m.PointLoads = manyPointLoads(300_000, 3) }, place(ModelItem, -1, NoProperty),
+			"the model would need at least 7.1 GB of memory for its 3e+05 key points (ends and breaks of segments, supports, point loads and load points), more than the 4.3 GB allowed: use fewer supports, point loads and load points, or split the member into several models (up to about 1.82e+05 key points fit)"},
+		// 100,000 point loads take 2.32 GB, which leaves room for
+		// (4,294,967,296 − 100,012 × 23,200) / 400 = 4,936,722 elements.
+		{"ten million elements and 100,000 point loads", func(m *Model) {
+			m.PointLoads, m.Mesh.Elements = manyPointLoads(100_000, 3), 10_000_000
+		}, place(MeshItem, -1, ElementsProperty),
+			"the mesh would need about 6.4 GB of memory (1.01e+07 elements), more than the 4.3 GB allowed: ask for fewer elements or a longer maximum element length (up to about 4.94e+06 elements fit)"},
+	})
+}
+
+// manyPointLoads spreads n point loads evenly inside a member of length L.
+func manyPointLoads(n int, L float64) []PointLoad {
+	loads := make([]PointLoad, n)
+	for i := range loads {
+		loads[i] = PointLoad{X: L * float64(i+1) / float64(n+1), Transverse: -1}
 	}
+	return loads
+}
+
+// checkValidation runs each case on its own copy of validModel.
+func checkValidation(t *testing.T, cases []validationCase) {
+	t.Helper()
 	if err := validModel().Validate(); err != nil {
 		t.Fatalf("the base model is invalid: %v", err)
 	}
@@ -83,11 +170,11 @@ func TestValidate(t *testing.T) {
 				t.Fatalf("got %v, want a *ValidationError", err)
 			}
 			for _, p := range ve.Problems {
-				if p.Item == c.item && p.Index == c.index && p.Field == c.field && strings.Contains(p.Message, c.text) {
+				if p.Place == c.place && strings.Contains(p.Message, c.text) {
 					return
 				}
 			}
-			t.Errorf("no problem (%s %d %q ~ %q) in\n%v", c.item, c.index, c.field, c.text, err)
+			t.Errorf("no problem at %+v saying %q in\n%v", c.place, c.text, err)
 		})
 	}
 }
@@ -117,4 +204,147 @@ func TestValidateReportsAll(t *testing.T) {
 	if _, err := Solve(&Model{}); err == nil {
 		t.Errorf("Solve of an empty model succeeded")
 	}
+}
+
+// Two different numbers never print alike, and a number prints no more
+// digits than it needs to read back.
+func TestFmtPair(t *testing.T) {
+	cases := []struct {
+		a, b         float64
+		wantA, wantB string
+	}{
+		{2, 2 + 1e-9, "2.0", "2.000000001"},
+		{1, math.Nextafter(1, 2), "1.0", "1.0000000000000002"},
+		{math.SmallestNonzeroFloat64, 2 * math.SmallestNonzeroFloat64, "5e-324", "1e-323"},
+		{1.0 / 3, 1.0 / 3, "0.333333", "0.333333"},
+		{1.0 / 3, math.Nextafter(1.0/3, 1), "0.3333333333333333", "0.3333333333333334"},
+		{-2e11, 3.2, "-2e+11", "3.2"},
+	}
+	for _, c := range cases {
+		if a, b := fmtPair(c.a, c.b); a != c.wantA || b != c.wantB {
+			t.Errorf("fmtPair(%v, %v) = %q, %q; want %q, %q", c.a, c.b, a, b, c.wantA, c.wantB)
+		}
+	}
+}
+
+// The bytes per element and per key point that Validate's memory estimate
+// uses must bound what the stages allocate, or the estimate would let
+// through models that do not fit. Bytes are runtime.MemStats.TotalAlloc
+// around each stage; the cost of one more element or key point is the
+// slope between two sizes, so that fixed costs do not count.
+func TestMemoryPerStage(t *testing.T) {
+	if testing.Short() {
+		t.Skip("allocates a large mesh")
+	}
+	// Per element: every stage, from 100,000 to 200,000 elements.
+	for _, order := range []ElementOrder{LinearBar, QuadraticBar} {
+		stages := func(elements int) (float64, int) {
+			m := mixedModel(elements)
+			m.Mesh.BarOrder = order
+			var s *Solution
+			bytes := allocated(t, func() error {
+				var err error
+				if s, err = Solve(m); err != nil {
+					return err
+				}
+				e, err := SolveExact(m)
+				if err != nil {
+					return err
+				}
+				Summarize(s, e)
+				Compare(s, e)
+				return nil
+			})
+			return bytes, len(s.Mesh.Elements)
+		}
+		perElement := slope(stages(100_000))(stages(200_000))
+		t.Logf("order %d: Solve, SolveExact, Summarize and Compare allocate %.0f B per element", order, perElement)
+		if perElement > stagesBytesPerElement {
+			t.Errorf("order %d: the stages allocate %.0f B per element, more than stagesBytesPerElement = %d", order, perElement, stagesBytesPerElement)
+		}
+	}
+	// Per key point, one element per stretch: Solve from 1,000 to 2,000 key
+	// points of each kind; Summarize with the exact solution from 125 to
+	// 250 (the exact solution's dense system makes more too slow for a test).
+	for _, kind := range []string{"segments", "supports", "point loads", "load points"} {
+		solve := func(n int) (float64, int) {
+			m := keyPointModel(kind, n)
+			return allocated(t, func() error { _, err := Solve(m); return err }), len(KeyPoints(m))
+		}
+		summary := func(n int) (float64, int) {
+			m := keyPointModel(kind, n)
+			s, err := Solve(m)
+			if err != nil {
+				t.Fatal(err)
+			}
+			e, err := SolveExact(m)
+			if err != nil {
+				t.Fatal(err)
+			}
+			return allocated(t, func() error { Summarize(s, e); return nil }), len(KeyPoints(m))
+		}
+		solvePerKey, summaryPerKey := slope(solve(1000))(solve(2000)), slope(summary(125))(summary(250))
+		t.Logf("%s: Solve allocates %.0f B per key point, Summarize %.0f", kind, solvePerKey, summaryPerKey)
+		if solvePerKey > solveBytesPerKeyPoint {
+			t.Errorf("%s: Solve allocates %.0f B per key point, more than solveBytesPerKeyPoint = %d", kind, solvePerKey, solveBytesPerKeyPoint)
+		}
+		if summaryPerKey > summaryBytesPerKeyPoint {
+			t.Errorf("%s: Summarize allocates %.0f B per key point, more than summaryBytesPerKeyPoint = %d", kind, summaryPerKey, summaryBytesPerKeyPoint)
+		}
+	}
+	// A billion elements are refused with the memory they would need.
+	m := mixedModel(1_000_000_000)
+	var ve *ValidationError
+	if err := m.Validate(); !errors.As(err, &ve) || !strings.Contains(err.Error(), "the mesh would need about 400.0 GB of memory") {
+		t.Errorf("10⁹ elements: got %v, want the memory refusal", err)
+	}
+}
+
+// slope gives, from (bytes, count) at two sizes, the bytes per extra count.
+func slope(bytes0 float64, count0 int) func(float64, int) float64 {
+	return func(bytes1 float64, count1 int) float64 { return (bytes1 - bytes0) / float64(count1-count0) }
+}
+
+// allocated returns the bytes that run allocates.
+func allocated(t *testing.T, run func() error) float64 {
+	t.Helper()
+	var before, after runtime.MemStats
+	runtime.GC()
+	runtime.ReadMemStats(&before)
+	if err := run(); err != nil {
+		t.Fatal(err)
+	}
+	runtime.ReadMemStats(&after)
+	return float64(after.TotalAlloc - before.TotalAlloc)
+}
+
+// keyPointModel is a simply supported member n m long with about n key
+// points of one kind: segment breaks, supports, point loads or the points
+// of one distributed load. It leaves the element count at zero, one
+// element per stretch.
+func keyPointModel(kind string, n int) *Model {
+	L := float64(n)
+	m := &Model{Segments: []Segment{testSegment(0, L)}, Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}}}
+	switch kind {
+	case "segments":
+		m.Segments = nil
+		for i := range n {
+			m.Segments = append(m.Segments, testSegment(float64(i), float64(i+1)))
+		}
+	case "supports":
+		for i := 1; i < n; i++ {
+			m.Supports = append(m.Supports, Support{X: float64(i) - 0.5, Kind: Roller})
+		}
+	case "point loads":
+		for i := 1; i < n; i++ {
+			m.PointLoads = append(m.PointLoads, PointLoad{X: float64(i) - 0.5, Axial: 10, Transverse: -1e3})
+		}
+	case "load points":
+		points := make([]LoadPoint, n+1)
+		for i := range points {
+			points[i] = LoadPoint{float64(i), float64(-1000 - i%3)}
+		}
+		m.DistributedLoad = []DistributedLoad{{Direction: Transverse, Points: points}}
+	}
+	return m
 }

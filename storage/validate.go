@@ -3,8 +3,6 @@ package storage
 import (
 	"errors"
 	"fmt"
-	"strconv"
-	"strings"
 
 	"stave/fem"
 )
@@ -21,7 +19,7 @@ func check(p *Project) []Problem {
 	if err := p.Model.Validate(); errors.As(err, &invalid) {
 		paths := loadPaths(p)
 		for _, q := range invalid.Problems {
-			problems = append(problems, Problem{Path: modelPath(q, paths), Message: q.Message})
+			problems = append(problems, Problem{Path: modelPath(q.Place, paths), Message: q.Message})
 		}
 	} else if err != nil {
 		add("", "%v", err)
@@ -56,45 +54,97 @@ func loadPaths(p *Project) [2][]string {
 	return paths
 }
 
-// femFields maps the field names of fem.Problem to the file's keys, per item.
-var femFields = map[string]map[string]string{
-	"segment": {
-		"area": "section.area", "second moment": "section.second_moment", "fibre distance": "section.fibre_distance",
-		"elastic": "material.elastic_modulus", "density": "material.density",
-		"allowable": "material.allowable_stress", "thermal expansion": "material.thermal_expansion",
-	},
-	"mesh":  {"max element length": "max_element_length", "bar order": "bar_order"},
-	"model": {"segments": "member.segments", "gravity[0]": "self_weight.gravity_x", "gravity[1]": "self_weight.gravity_y", "temperature change": "temperature_change"},
-}
-
 // modelPath turns the place of a fem.Problem into a path in the file.
-func modelPath(q fem.Problem, loads [2][]string) string {
-	field := q.Field
-	if f, ok := femFields[q.Item][field]; ok {
-		field = f
-	}
-	// "stiffness[1]" → "stiffness.transverse"; "points[2].x" → "points[2][0]".
-	if strings.HasPrefix(field, "stiffness[") || strings.HasPrefix(field, "settlement[") {
-		for d, name := range motionNames {
-			field = strings.Replace(field, "["+strconv.Itoa(d)+"]", "."+name, 1)
-		}
-	}
-	field = strings.NewReplacer(".x", "[0]", ".intensity", "[1]").Replace(field)
-
+func modelPath(at fem.Place, loads [2][]string) string {
 	var item string
-	switch q.Item {
-	case "segment":
-		item = fmt.Sprintf("member.segments[%d]", q.Index)
-	case "support":
-		item = fmt.Sprintf("supports[%d]", q.Index)
-	case "point load":
-		item = indexed(loads[PointLoad], q.Index)
-	case "distributed load":
-		item = indexed(loads[DistributedLoad], q.Index)
-	case "mesh":
+	switch at.Item.Kind {
+	case fem.SegmentItem:
+		item = fmt.Sprintf("member.segments[%d]", at.Item.Index)
+	case fem.SupportItem:
+		item = fmt.Sprintf("supports[%d]", at.Item.Index)
+	case fem.PointLoadItem:
+		item = indexed(loads[PointLoad], at.Item.Index)
+	case fem.DistributedLoadItem:
+		item = indexed(loads[DistributedLoad], at.Item.Index)
+	case fem.MeshItem:
 		item = "mesh"
 	}
-	return join(item, field)
+	if key := propertyKey(at); key != "" {
+		return join(item, key)
+	}
+	return item
+}
+
+// propertyKey gives the key, below its item, that holds a property in the file.
+func propertyKey(at fem.Place) string {
+	switch at.Property {
+	case fem.StartProperty:
+		return "start"
+	case fem.EndProperty:
+		return "end"
+	case fem.AreaProperty:
+		return "section.area"
+	case fem.SecondMomentProperty:
+		return "section.second_moment"
+	case fem.FibreDistanceProperty:
+		return "section.fibre_distance"
+	case fem.ElasticProperty:
+		return "material.elastic_modulus"
+	case fem.DensityProperty:
+		return "material.density"
+	case fem.ThermalExpansionProperty:
+		return "material.thermal_expansion"
+	case fem.AllowableProperty:
+		return "material.allowable_stress"
+	case fem.PositionProperty:
+		return "x"
+	case fem.KindProperty:
+		return "kind"
+	case fem.StiffnessProperty:
+		return "stiffness"
+	case fem.MotionStiffnessProperty:
+		return "stiffness." + motionName(at.Dof)
+	case fem.SettlementProperty:
+		return "settlement." + motionName(at.Dof)
+	case fem.AxialForceProperty:
+		return "axial"
+	case fem.TransverseForceProperty:
+		return "transverse"
+	case fem.MomentProperty:
+		return "moment"
+	case fem.DirectionProperty:
+		return "direction"
+	case fem.PointsProperty:
+		return "points"
+	case fem.PointXProperty:
+		return fmt.Sprintf("points[%d][0]", at.Vertex)
+	case fem.PointIntensityProperty:
+		return fmt.Sprintf("points[%d][1]", at.Vertex)
+	case fem.ElementsProperty:
+		return "elements"
+	case fem.MaxElementLengthProperty:
+		return "max_element_length"
+	case fem.BarOrderProperty:
+		return "bar_order"
+	case fem.SegmentsProperty:
+		return "member.segments"
+	case fem.GravityProperty:
+		if at.Dof == fem.Axial {
+			return "self_weight.gravity_x"
+		}
+		return "self_weight.gravity_y"
+	case fem.TemperatureChangeProperty:
+		return "temperature_change"
+	}
+	return ""
+}
+
+// motionName is the file's key for motion d.
+func motionName(d fem.Dof) string {
+	if d < 0 || int(d) >= len(motionNames) {
+		return "unknown"
+	}
+	return motionNames[d]
 }
 
 func indexed(paths []string, i int) string {

@@ -7,6 +7,8 @@ import (
 	"slices"
 	"strings"
 	"testing"
+
+	"stave/fem"
 )
 
 func readDemo(t *testing.T) string {
@@ -63,6 +65,12 @@ func TestDecodeReportsEachKindOfProblem(t *testing.T) {
 		{name: "two supports at one point", old: `"x": 3,`, new: `"x": 5.5,`, path: "supports[2].x", phrase: "both at x = 5.5 m"},
 		{name: "display units unknown", old: `"units": "SI"`, new: `"units": "imperial"`, path: "view.units", phrase: `use "SI" or "US"`},
 		{name: "safety factor zero", old: `"safety_factor": 1`, new: `"safety_factor": 0`, path: "view.safety_factor", phrase: "above zero"},
+		{name: "segments a nanometre apart", old: `"start": 3,`, new: `"start": 3.000000001,`, path: "member.segments[1].start", phrase: "(ends at x = 3.0 m) and segment 2 (starts at x = 3.000000001 m)"},
+		{name: "modulus of 5e-324", old: `"elastic_modulus": 1.15e10,`, new: `"elastic_modulus": 5e-324,`, path: "member.segments[0]", phrase: "(E = 5e-324 Pa, A = 0.0243 m², ℓ = 3.0 m), outside the range the solvers work in (1e-150 to 1e+150 N/m)"},
+		{name: "member 1e300 m long", old: `"end": 5.5,`, new: `"end": 1e300,`, path: "member.segments[1]", phrase: "ℓ = 1e+300 m), outside the range the solvers work in"},
+		{name: "spring of 1e200", old: `"kind": "roller"`, new: `"kind": "spring", "stiffness": {"transverse": 1e200}`, path: "supports[1].stiffness.transverse", phrase: "1e+200 N/m, outside the range the solvers work in"},
+		{name: "a billion elements", old: `"elements": 22,`, new: `"elements": 1000000000,`, path: "mesh.elements", phrase: "more than the 4.3 GB allowed: ask for fewer elements or a longer maximum element length (up to about 1.07e+07 elements fit)"},
+		{name: "element length of 5e-324", old: `"max_element_length": 0.25`, new: `"max_element_length": 5e-324`, path: "mesh.elements", phrase: "the mesh would need more than 1e+299 GB of memory"},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
@@ -154,5 +162,73 @@ func TestMigrateAppliesStepsInOrder(t *testing.T) {
 	}
 	if len(applied) != 0 {
 		t.Errorf("steps %v ran before the missing one was found", applied)
+	}
+}
+
+// Every place a fem.Problem can name maps to the file's key for it, with the
+// loads numbered in file order (docs/format.md).
+func TestModelPathOfEveryProperty(t *testing.T) {
+	// File order: distributed load 0, point load 0, point load 1.
+	loads := [2][]string{PointLoad: {"loads[1]", "loads[2]"}, DistributedLoad: {"loads[0]"}}
+	at := func(kind fem.ItemKind, i int, p fem.Property) fem.Place {
+		return fem.Place{Item: fem.Item{Kind: kind, Index: i}, Property: p}
+	}
+	model, mesh := func(p fem.Property) fem.Place { return at(fem.ModelItem, -1, p) }, func(p fem.Property) fem.Place { return at(fem.MeshItem, -1, p) }
+	spring := at(fem.SupportItem, 2, fem.MotionStiffnessProperty)
+	spring.Dof = fem.Rotation
+	settlement := at(fem.SupportItem, 0, fem.SettlementProperty)
+	settlement.Dof = fem.Transverse
+	gravityX, gravityY := model(fem.GravityProperty), model(fem.GravityProperty)
+	gravityY.Dof = fem.Transverse
+	pointX, intensity := at(fem.DistributedLoadItem, 0, fem.PointXProperty), at(fem.DistributedLoadItem, 0, fem.PointIntensityProperty)
+	pointX.Vertex, intensity.Vertex = 2, 3
+	tests := []struct {
+		place fem.Place
+		path  string
+	}{
+		{model(fem.NoProperty), ""},
+		{model(fem.SegmentsProperty), "member.segments"},
+		{gravityX, "self_weight.gravity_x"},
+		{gravityY, "self_weight.gravity_y"},
+		{model(fem.TemperatureChangeProperty), "temperature_change"},
+		{at(fem.SegmentItem, 1, fem.NoProperty), "member.segments[1]"},
+		{at(fem.SegmentItem, 1, fem.StartProperty), "member.segments[1].start"},
+		{at(fem.SegmentItem, 0, fem.EndProperty), "member.segments[0].end"},
+		{at(fem.SegmentItem, 0, fem.AreaProperty), "member.segments[0].section.area"},
+		{at(fem.SegmentItem, 0, fem.SecondMomentProperty), "member.segments[0].section.second_moment"},
+		{at(fem.SegmentItem, 0, fem.FibreDistanceProperty), "member.segments[0].section.fibre_distance"},
+		{at(fem.SegmentItem, 0, fem.ElasticProperty), "member.segments[0].material.elastic_modulus"},
+		{at(fem.SegmentItem, 0, fem.DensityProperty), "member.segments[0].material.density"},
+		{at(fem.SegmentItem, 0, fem.ThermalExpansionProperty), "member.segments[0].material.thermal_expansion"},
+		{at(fem.SegmentItem, 0, fem.AllowableProperty), "member.segments[0].material.allowable_stress"},
+		{at(fem.SupportItem, 2, fem.PositionProperty), "supports[2].x"},
+		{at(fem.SupportItem, 2, fem.KindProperty), "supports[2].kind"},
+		{at(fem.SupportItem, 2, fem.StiffnessProperty), "supports[2].stiffness"},
+		{spring, "supports[2].stiffness.rotation"},
+		{settlement, "supports[0].settlement.transverse"},
+		{at(fem.PointLoadItem, 1, fem.PositionProperty), "loads[2].x"},
+		{at(fem.PointLoadItem, 0, fem.AxialForceProperty), "loads[1].axial"},
+		{at(fem.PointLoadItem, 0, fem.TransverseForceProperty), "loads[1].transverse"},
+		{at(fem.PointLoadItem, 0, fem.MomentProperty), "loads[1].moment"},
+		{at(fem.DistributedLoadItem, 0, fem.DirectionProperty), "loads[0].direction"},
+		{at(fem.DistributedLoadItem, 0, fem.PointsProperty), "loads[0].points"},
+		{pointX, "loads[0].points[2][0]"},
+		{intensity, "loads[0].points[3][1]"},
+		{mesh(fem.NoProperty), "mesh"},
+		{mesh(fem.ElementsProperty), "mesh.elements"},
+		{mesh(fem.MaxElementLengthProperty), "mesh.max_element_length"},
+		{mesh(fem.BarOrderProperty), "mesh.bar_order"},
+	}
+	covered := map[fem.Property]bool{}
+	for _, tt := range tests {
+		covered[tt.place.Property] = true
+		if got := modelPath(tt.place, loads); got != tt.path {
+			t.Errorf("%+v: path %q, want %q", tt.place, got, tt.path)
+		}
+	}
+	for p := fem.NoProperty; p <= fem.TemperatureChangeProperty; p++ {
+		if !covered[p] {
+			t.Errorf("property %d has no row in this table", p)
+		}
 	}
 }
