@@ -283,7 +283,20 @@ func (r *reader) number(path string, v *node, unit string) float64 {
 		r.add(path, "%s is too large for a number; enter a value in %s", cut(v.text), unit)
 		return 0
 	}
+	if x == 0 && nonzeroMantissa(v.text) {
+		r.add(path, "%s is too small for a number and would read as 0; enter 0 if you mean zero, or check the unit (values in %s)", cut(v.text), unit)
+		return 0
+	}
 	return x
+}
+
+// nonzeroMantissa reports whether a JSON number has a digit other than 0
+// before its exponent: a value that is not zero, however small.
+func nonzeroMantissa(text string) bool {
+	if i := strings.IndexAny(text, "eE"); i >= 0 {
+		text = text[:i]
+	}
+	return strings.ContainsAny(text, "123456789")
 }
 
 // maxCount bounds the whole numbers of a file, so they fit an int anywhere.
@@ -405,6 +418,10 @@ func (r *reader) project(top *fields) *Project {
 		Elements:         mesh.count("elements", true),
 		MaxElementLength: mesh.number("max_element_length", "m", false),
 		BarOrder:         fem.ElementOrder(mesh.count("bar_order", false)),
+	}
+	// fem reads an order of 0 as linear; a file says so by leaving the key out.
+	if order := mesh.get("bar_order", false, ""); order != nil && order.kind == numberNode && !nonzeroMantissa(order.text) {
+		r.add("mesh.bar_order", "%s is not a bar element order; enter 1 (linear) or 2 (quadratic), or leave bar_order out for linear", cut(order.text))
 	}
 	mesh.finish()
 

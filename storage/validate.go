@@ -26,7 +26,7 @@ func check(p *Project) []Problem {
 	}
 	v := p.View
 	if v.Units != SI && v.Units != US {
-		add("view.units", "%q is not a display unit system; use %q or %q", string(v.Units), SI, US)
+		add("view.units", "%q is not a display unit system; use %q or %q", cut(string(v.Units)), SI, US)
 	}
 	if !(v.Magnification >= 0) {
 		add("view.magnification", "%g is not a magnification; enter zero (automatic) or more", v.Magnification)

@@ -71,6 +71,8 @@ func TestDecodeReportsEachKindOfProblem(t *testing.T) {
 		{name: "spring of 1e200", old: `"kind": "roller"`, new: `"kind": "spring", "stiffness": {"transverse": 1e200}`, path: "supports[1].stiffness.transverse", phrase: "1e+200 N/m, outside the range the solvers work in"},
 		{name: "a billion elements", old: `"elements": 22,`, new: `"elements": 1000000000,`, path: "mesh.elements", phrase: "more than the 4.3 GB allowed: ask for fewer elements or a longer maximum element length (up to about 1.07e+07 elements fit)"},
 		{name: "element length of 5e-324", old: `"max_element_length": 0.25`, new: `"max_element_length": 5e-324`, path: "mesh.elements", phrase: "the mesh would need more than 1e+299 GB of memory"},
+		{name: "area that underflows", old: `"area": 0.0243,`, new: `"area": 1e-400,`, path: "member.segments[0].section.area", phrase: "1e-400 is too small for a number and would read as 0"},
+		{name: "bar order 0", old: `"elements": 22,`, new: `"elements": 22, "bar_order": 0,`, path: "mesh.bar_order", phrase: "0 is not a bar element order; enter 1 (linear) or 2 (quadratic), or leave bar_order out for linear"},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
