@@ -16,8 +16,8 @@ import (
 // matrix, and entries of the first and last rows that fall outside the
 // matrix are unused. This is the row-major layout of gonum's blas64.Band
 // with KL subdiagonals and KL+KU superdiagonals, the row-major counterpart
-// of LAPACK's dgbtrf storage, so a factorization starts from one copy of
-// Data.
+// of LAPACK's dgbtrf storage, so a factorization works in a copy of Data
+// laid out the same way.
 type General struct {
 	N, KL, KU int
 	Data      []float64
