@@ -1,0 +1,143 @@
+package band
+
+import (
+	"math"
+	"math/rand/v2"
+	"slices"
+	"testing"
+
+	"gonum.org/v1/gonum/mat"
+)
+
+// badlyScaled returns a band matrix of testGeneral's kind with its rows and
+// columns multiplied by random powers of ten from 1e−6 to 1e6, the way
+// equations in N and in N·m and unknowns in m and in rad mix in one system.
+func badlyScaled(rnd *rand.Rand, c bandCase) *General {
+	n, kl, ku := c.n, c.kl, c.ku
+	a := c.matrix(rnd)
+	rows, cols := make([]float64, n), make([]float64, n)
+	for i := range n {
+		rows[i] = math.Pow(10, float64(rnd.IntN(13)-6))
+		cols[i] = math.Pow(10, float64(rnd.IntN(13)-6))
+	}
+	for i := range n {
+		for j := max(0, i-kl); j <= min(n-1, i+ku); j++ {
+			a.Set(i, j, a.At(i, j)*rows[i]*cols[j])
+		}
+	}
+	return a
+}
+
+// Ruiz's scaling converges in the ∞-norm linearly with rate 1/2 (Ruiz, "A
+// scaling algorithm to equilibrate both rows and columns norms in
+// matrices", 2001, from memory), so 8 passes bring every row and column
+// maximum of these matrices, whose entries spread over up to 1e±15, within
+// a factor 2 of 1. The scales returned must be the ones applied, and the
+// band alone must change. The caller's recipe must give back the solution:
+// with b = A·x for a chosen x, solving (R·A·C)·y = R·b by LU must give
+// y = C⁻¹·x to within 10·n·κ·u (as in TestLUAgainstGonumDense), κ gonum's
+// condition estimate (mat.LU.Cond) of R·A·C, which the scaling made small:
+// gonum's estimate for A itself must be at least 1e6 times larger.
+func TestEquilibrate(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(31, 32))
+	cases := []bandCase{
+		{1, 0, 0, dominantRows},
+		{7, 1, 1, shuffledRows},
+		{20, 0, 3, mixedRows},
+		{20, 3, 0, mixedRows},
+		{40, 5, 8, shuffledRows},
+		{200, 5, 8, mixedRows},
+		{200, 6, 6, shuffledRows},
+	}
+	for _, c := range cases {
+		t.Run(c.String(), func(t *testing.T) {
+			n := c.n
+			a := badlyScaled(rnd, c)
+			orig := &General{N: n, KL: c.kl, KU: c.ku, Data: slices.Clone(a.Data)}
+			rowScale, colScale := Equilibrate(a, 8)
+			s := a.Stride()
+			for i := range n {
+				for q := range s {
+					j := i + q - c.kl
+					p := i*s + q
+					if j < max(0, i-c.kl) || j > min(n-1, i+c.ku) {
+						if a.Data[p] != orig.Data[p] {
+							t.Fatalf("Data[%d], outside the band, changed from %g to %g", p, orig.Data[p], a.Data[p])
+						}
+						continue
+					}
+					want := rowScale[i] * orig.At(i, j) * colScale[j]
+					if !(math.Abs(a.At(i, j)-want) <= 1e-14*math.Abs(want)) {
+						t.Fatalf("scaled A[%d][%d] = %.17g, rowScale·A·colScale = %.17g", i, j, a.At(i, j), want)
+					}
+				}
+			}
+			for i := range n {
+				rowMax, colMax := 0.0, 0.0
+				for j := range n {
+					rowMax = max(rowMax, math.Abs(a.At(i, j)))
+					colMax = max(colMax, math.Abs(a.At(j, i)))
+				}
+				if !(rowMax >= 0.5 && rowMax <= 2 && colMax >= 0.5 && colMax <= 2) {
+					t.Fatalf("after 8 passes row %d's largest entry is %g, column %d's %g", i, rowMax, i, colMax)
+				}
+			}
+
+			// y is the solution of the scaled system, x = C·y that of A·x = b.
+			y, x, b := make([]float64, n), make([]float64, n), make([]float64, n)
+			for j := range n {
+				y[j] = 2*rnd.Float64() - 1
+				x[j] = colScale[j] * y[j]
+			}
+			for i := range n {
+				for j := range n {
+					b[i] += orig.At(i, j) * x[j]
+				}
+			}
+			var f LU
+			if err := f.Factorize(a); err != nil {
+				t.Fatal(err)
+			}
+			got := make([]float64, n)
+			for i := range got {
+				got[i] = rowScale[i] * b[i]
+			}
+			if err := f.SolveTo(got, got); err != nil {
+				t.Fatal(err)
+			}
+			var scaled, raw mat.LU
+			scaled.Factorize(denseGeneral(a))
+			raw.Factorize(denseGeneral(orig))
+			agree(t, "y = C⁻¹·x", got, y, solveTolerance(t, &scaled, n))
+			if n > 1 && !(raw.Cond() >= 1e6*scaled.Cond()) {
+				t.Errorf("condition estimate %.3g before scaling, %.3g after: the test matrix is not badly scaled", raw.Cond(), scaled.Cond())
+			}
+		})
+	}
+}
+
+// A zero row or column keeps unit scale, and no pass changes nothing. In a
+// matrix with one entry a row and column, each half of a pass takes that
+// entry's square root (the definition of the scaling), so k passes leave
+// v^(1/4^k).
+func TestEquilibrateEdges(t *testing.T) {
+	a := generalFrom(1, 1, [][]float64{{4, 0, 0}, {0, 0, 0}, {0, 9, 0}})
+	orig := slices.Clone(a.Data)
+	rows, cols := Equilibrate(a, 0)
+	if !slices.Equal(a.Data, orig) || !slices.Equal(rows, []float64{1, 1, 1}) || !slices.Equal(cols, []float64{1, 1, 1}) {
+		t.Fatalf("no pass: matrix %v, scales %v %v", a.Data, rows, cols)
+	}
+	rows, cols = Equilibrate(a, 3)
+	if rows[1] != 1 || cols[2] != 1 {
+		t.Fatalf("zero row 1 scaled by %g, zero column 2 by %g", rows[1], cols[2])
+	}
+	for _, e := range []struct {
+		i, j int
+		v    float64
+	}{{0, 0, 4}, {2, 1, 9}} {
+		want := math.Pow(e.v, 1.0/64)
+		if got := a.At(e.i, e.j); !(math.Abs(got-want) <= 1e-15*want) {
+			t.Errorf("A[%d][%d] = %.17g after 3 passes, want %g^(1/64) = %.17g", e.i, e.j, got, e.v, want)
+		}
+	}
+}
