@@ -1,5 +1,7 @@
 package fem
 
+import "math"
+
 // The bar: 2-node linear and 3-node quadratic elements for
 // −(EA (u' − αΔT))' = p, with u the axial displacement.
 
@@ -91,4 +93,30 @@ func (d *elementData) barLoads(order ElementOrder) localVector {
 		}
 	}
 	return f
+}
+
+// elementLength bounds the interpolation error of the bar (Strang & Fix, An
+// Analysis of the Finite Element Method, ch. 1, interpolation error of
+// piecewise polynomials, from memory): on a linear element N is constant,
+// off by at most |p|·h/2 from the exact N, whose slope is −p, and u is off
+// by at most |u″|·h²/8 = |p|·h²/(8·EA); on a quadratic one N is linear, off
+// by at most |p′|·h²/8, and u by at most |u‴|·h³/72 ≈ |p′|·h³/(72·EA).
+// The axial stress follows N/A; the combined stress takes half the
+// tolerance, the beam's error taking the other half.
+func (f barFormulation) elementLength(d *elementData, s *fieldScales, tol float64) float64 {
+	p := max(math.Abs(d.axialLoad[0]), math.Abs(d.axialLoad[1]))
+	slope := math.Abs(d.axialLoad[1]-d.axialLoad[0]) / d.length
+	ea, area := d.axialRigidity, d.area
+	if f.order == QuadraticBar {
+		return min(
+			sizeLimit(slope/8, 2, tol*s[QAxialForce]),
+			sizeLimit(slope/(8*area), 2, tol*s[QAxialStress]),
+			sizeLimit(slope/(8*area), 2, tol/2*s[QCombinedStress]),
+			sizeLimit(slope/(72*ea), 3, tol*s[QAxialDisplacement]))
+	}
+	return min(
+		sizeLimit(p/2, 1, tol*s[QAxialForce]),
+		sizeLimit(p/(2*area), 1, tol*s[QAxialStress]),
+		sizeLimit(p/(2*area), 1, tol/2*s[QCombinedStress]),
+		sizeLimit(p/(8*ea), 2, tol*s[QAxialDisplacement]))
 }

@@ -1,5 +1,7 @@
 package fem
 
+import "math"
+
 // The beam: 2-node Hermite cubic elements for (EI w″)″ = q, with w the
 // deflection and θ = w′ the rotation.
 
@@ -91,4 +93,23 @@ func hermiteLoads(h, q0, q1 float64) localVector {
 		h * (3*q0 + 7*q1) / 20,
 		-h * h * (2*q0 + 3*q1) / 60,
 	}
+}
+
+// elementLength bounds the interpolation error of the Hermite beam (Strang
+// & Fix, An Analysis of the Finite Element Method, ch. 1, from memory): V is
+// constant on an element, off by about |q|·h/2 from the exact V (slope q);
+// M is linear, off by at most |q|·h²/8; w is the cubic Hermite interpolant,
+// off by at most |w⁗|·h⁴/384 = |q|·h⁴/(384·EI), and θ by at most
+// |q|·h³/(24·EI). The bending stress follows M·c/I; the combined stress
+// takes half the tolerance, the bar's error taking the other half.
+func (hermiteBeam) elementLength(d *elementData, s *fieldScales, tol float64) float64 {
+	q := max(math.Abs(d.transverseLoad[0]), math.Abs(d.transverseLoad[1]))
+	ei, section := d.flexuralRigidity, d.fibre/d.secondMoment
+	return min(
+		sizeLimit(q/2, 1, tol*s[QShearForce]),
+		sizeLimit(q/8, 2, tol*s[QBendingMoment]),
+		sizeLimit(q*section/8, 2, tol*s[QBendingStress]),
+		sizeLimit(q*section/8, 2, tol/2*s[QCombinedStress]),
+		sizeLimit(q/(384*ei), 4, tol*s[QDeflection]),
+		sizeLimit(q/(24*ei), 3, tol*s[QRotation]))
 }

@@ -38,6 +38,11 @@ type Formulation interface {
 	element(e int) (first, count int)
 	stiffness(d *elementData) localMatrix
 	loads(d *elementData) localVector
+	// elementLength is the longest element on the stretch d that keeps the
+	// interpolation error of every quantity the element carries within tol
+	// of that quantity's largest exact magnitude (automesh.go); +Inf when
+	// any length will do.
+	elementLength(d *elementData, scale *fieldScales, tol float64) float64
 }
 
 // Variation is how a result quantity varies inside one element.

@@ -1,8 +1,11 @@
 package fem
 
 import (
+	"fmt"
 	"math"
 	"sort"
+
+	"stave/fem/band"
 )
 
 // Exact is the closed-form solution of a model. Between key points (the ends,
@@ -27,17 +30,41 @@ type exactStretch struct {
 	bar, beam     stretchSolution
 }
 
-// stretchSolution is y(t) = Σ coeff[k]·t^k on one stretch, with the local
-// coordinate t = (x − start)/length in [0, 1]: the bar's u or the beam's w, m.
-// Working in t keeps all unknowns in metres whatever the stretch length.
+// stretchSolution is the closed form of one problem (the bar's u or the
+// beam's w, m) on one stretch, in the local coordinate t = (x − start)/length
+// in [0, 1]: y(t) = Σ c_k·φ_k(t) + y_p(t), with order homogeneous solutions
+// φ_k whose constants c_k SolveExact finds and a particular solution y_p of
+// the stretch's loads. Working in t keeps all unknowns in metres whatever the
+// stretch length. The equations are written through basis, particular and
+// setConstants only, so a stretch of another kind (on an elastic
+// foundation, with shear deformation) brings its own functions; every
+// stretch today is polynomial: φ_k = t^k and y_p a polynomial, kept as one
+// list of coefficients.
 type stretchSolution struct {
 	stiffness float64 // EA (N) for the bar, EI (N·m²) for the beam
 	// offset is added to the first section action: −EA·α·ΔT turns EA·u' into N.
 	offset float64
-	// coeff holds the homogeneous part (order terms, solved for) followed by
-	// the particular part of a linear load (two terms, known).
+	// order is the number of homogeneous solutions (2 for the bar, 4 for the beam).
+	order int
+	// coeff holds the constants of the homogeneous part (order terms)
+	// followed by the particular part of a linear load (two terms, known).
 	coeff []float64
 }
+
+// basis is the d-th derivative in t of the k-th homogeneous solution at t.
+func (s *stretchSolution) basis(k, d int, t float64) float64 { return monomialDerivative(k, d, t) }
+
+// particular is the d-th derivative in t of the particular solution at t.
+func (s *stretchSolution) particular(d int, t float64) float64 {
+	v := 0.0
+	for k := s.order; k < len(s.coeff); k++ {
+		v += s.coeff[k] * monomialDerivative(k, d, t)
+	}
+	return v
+}
+
+// setConstants stores the homogeneous constants found for the stretch.
+func (s *stretchSolution) setConstants(c []float64) { copy(s.coeff[:s.order], c) }
 
 // odeProblem is one of the two decoupled problems, written so that bar and
 // beam share the assembly. Its section actions are
@@ -76,10 +103,6 @@ type restraint struct {
 	compliance float64 // m/N or rad/(N·m)
 }
 
-// maxCondition bounds the condition number of the equilibrated system; above
-// it the integration constants would carry too few correct digits.
-const maxCondition = 1e13
-
 // SolveExact integrates the governing equations of m in closed form.
 func SolveExact(m *Model) (*Exact, error) {
 	p, err := Prepare(m)
@@ -92,25 +115,8 @@ func SolveExact(m *Model) (*Exact, error) {
 func solveExact(p *Member) (*Exact, error) {
 	m := &p.model
 	e := &Exact{keys: p.keys}
+	points := e.keyPoints(p)
 	loads := &p.loads
-	points := make([]keyPoint, len(e.keys))
-	for i, s := range m.Supports {
-		k := &points[e.keyIndex(s.X)]
-		for d := Axial; d <= Rotation; d++ {
-			switch {
-			case s.Kind.Restrains(d):
-				k.restraints = append(k.restraints, restraint{support: i, dof: d, settlement: loads.Settlement[i][d]})
-			case s.Kind == Spring && s.Stiffness[d] > 0:
-				k.restraints = append(k.restraints, restraint{support: i, dof: d, compliance: 1 / s.Stiffness[d]})
-			}
-		}
-	}
-	for _, p := range loads.Points {
-		k := &points[e.keyIndex(p.X)]
-		k.load[Axial] += p.Axial
-		k.load[Transverse] += p.Transverse
-		k.load[Rotation] += p.Moment
-	}
 	e.stretches = make([]exactStretch, len(e.keys)-1)
 	for j := range e.stretches {
 		e.stretches[j] = newStretch(m, loads, j)
@@ -187,7 +193,32 @@ func newStretchSolution(order int, stiffness, h, l0, l1 float64) stretchSolution
 	scale := math.Pow(h, float64(order)) / stiffness
 	c[order] = scale * l0 / fallingFactorial(order, order)
 	c[order+1] = scale * (l1 - l0) / fallingFactorial(order+1, order+1)
-	return stretchSolution{stiffness: stiffness, coeff: c}
+	return stretchSolution{stiffness: stiffness, order: order, coeff: c}
+}
+
+// keyPoints gathers what acts at each key point of member p: its point
+// loads and the restraints of its supports.
+func (e *Exact) keyPoints(p *Member) []keyPoint {
+	loads := &p.loads
+	points := make([]keyPoint, len(e.keys))
+	for i, s := range p.model.Supports {
+		k := &points[e.keyIndex(s.X)]
+		for d := Axial; d <= Rotation; d++ {
+			switch {
+			case s.Kind.Restrains(d):
+				k.restraints = append(k.restraints, restraint{support: i, dof: d, settlement: loads.Settlement[i][d]})
+			case s.Kind == Spring && s.Stiffness[d] > 0:
+				k.restraints = append(k.restraints, restraint{support: i, dof: d, compliance: 1 / s.Stiffness[d]})
+			}
+		}
+	}
+	for _, p := range loads.Points {
+		k := &points[e.keyIndex(p.X)]
+		k.load[Axial] += p.Axial
+		k.load[Transverse] += p.Transverse
+		k.load[Rotation] += p.Moment
+	}
+	return points
 }
 
 // keyIndex returns the index of the key point nearest to x.
@@ -200,47 +231,81 @@ func (e *Exact) keyIndex(x float64) int {
 }
 
 // solveProblem assembles and solves the bar or the beam equations: per
-// stretch the homogeneous constants, per restraint its reaction.
+// stretch the homogeneous constants, per restraint its reaction (see
+// exact_system.go for the banded layout).
 func (e *Exact) solveProblem(p odeProblem, points []keyPoint) error {
-	nStretch := len(e.stretches)
-	var held []restraint
-	for _, k := range points {
-		for _, r := range k.restraints {
+	l := e.layout(p, points)
+	var shape bandShape
+	e.equations(p, points, l, &shape)
+	sys := &bandedEquations{a: band.NewGeneral(l.unknowns, shape.lower, shape.upper), b: make([]float64, l.unknowns)}
+	if rows := e.equations(p, points, l, sys); rows != l.unknowns {
+		return fmt.Errorf("fem: exact solution assembled %d equations for %d unknowns", rows, l.unknowns)
+	}
+	x, err := sys.solve()
+	if err != nil {
+		return err
+	}
+	e.store(p, l, x)
+	return nil
+}
+
+// exactLayout numbers the unknowns of one problem along the member: at
+// each key point the reactions of the restraints there, then the constants
+// of the stretch that starts there.
+type exactLayout struct {
+	held     []restraint // the restraints of the problem, in order along the member
+	heldCol  []int       // the column of each one's reaction
+	firstCol []int       // per stretch, the column of its first constant
+	unknowns int
+}
+
+func (e *Exact) layout(p odeProblem, points []keyPoint) exactLayout {
+	l := exactLayout{firstCol: make([]int, len(e.stretches))}
+	col := 0
+	for k, kp := range points {
+		for _, r := range kp.restraints {
 			if p.index(r.dof) >= 0 {
-				held = append(held, r)
+				l.held = append(l.held, r)
+				l.heldCol = append(l.heldCol, col)
+				col++
 			}
 		}
-	}
-	n := p.order*nStretch + len(held)
-	sys := newDenseSystem(n)
-	sol := func(j int) *stretchSolution {
-		if p.order == exactBar.order {
-			return &e.stretches[j].bar
+		if k < len(e.stretches) {
+			l.firstCol[k] = col
+			col += p.order
 		}
-		return &e.stretches[j].beam
 	}
-	// term adds scale·y^(d) of stretch j at t to the current row.
+	l.unknowns = col
+	return l
+}
+
+// equations writes the equations of problem p to sys, key point by key
+// point, and returns how many rows it wrote. At each key point and for
+// each motion: continuity of the motion between the two stretches (inside
+// the member), the balance of the section actions with the point loads and
+// the reactions there, and for each restraint its condition
+// y + compliance·R = settlement.
+func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys exactEquations) int {
+	nStretch := len(e.stretches)
+	row := 0
+	// term adds scale·y^(d) of stretch j at t to the row.
 	term := func(j, d int, t, scale float64) {
-		s := sol(j)
+		s := e.solution(p, j)
 		f := scale / math.Pow(e.stretches[j].length, float64(d))
-		for k := range s.coeff {
-			v := f * monomialDerivative(k, d, t)
-			if k < p.order {
-				sys.a.Set(sys.row, j*p.order+k, sys.a.At(sys.row, j*p.order+k)+v)
-			} else {
-				sys.b[sys.row] -= v * s.coeff[k]
-			}
+		for k := range p.order {
+			sys.add(row, l.firstCol[j]+k, f*s.basis(k, d, t))
 		}
+		sys.rhs(row, -f*s.particular(d, t))
 	}
-	// action adds scale·T_i of stretch j at t to the current row.
+	// action adds scale·T_i of stretch j at t to the row.
 	action := func(j, i int, t, scale float64) {
-		s := sol(j)
+		s := e.solution(p, j)
 		term(j, p.order-1-i, t, scale*p.signs[i]*s.stiffness)
 		if i == 0 {
-			sys.b[sys.row] -= scale * s.offset
+			sys.rhs(row, -scale*s.offset)
 		}
 	}
-	next := 0 // index into held
+	next := 0 // index into l.held
 	for k, kp := range points {
 		// The motion at a key point is read from the stretch on its right,
 		// or on its left at x = L.
@@ -252,7 +317,7 @@ func (e *Exact) solveProblem(p odeProblem, points []keyPoint) error {
 			if k > 0 && k < nStretch {
 				term(k, i, 0, 1)
 				term(k-1, i, 1, -1)
-				sys.row++
+				row++
 			}
 			if k < nStretch {
 				action(k, i, 0, 1)
@@ -260,34 +325,42 @@ func (e *Exact) solveProblem(p odeProblem, points []keyPoint) error {
 			if k > 0 {
 				action(k-1, i, 1, -1)
 			}
-			sys.b[sys.row] -= kp.load[d]
+			sys.rhs(row, -kp.load[d])
 			first := next
 			for _, r := range kp.restraints {
 				if r.dof == d {
-					sys.a.Set(sys.row, p.order*nStretch+next, 1)
+					sys.add(row, l.heldCol[next], 1)
 					next++
 				}
 			}
-			sys.row++
+			row++
 			for q := first; q < next; q++ {
 				term(side, i, t, 1)
-				sys.a.Set(sys.row, p.order*nStretch+q, held[q].compliance)
-				sys.b[sys.row] += held[q].settlement
-				sys.row++
+				sys.add(row, l.heldCol[q], l.held[q].compliance)
+				sys.rhs(row, l.held[q].settlement)
+				row++
 			}
 		}
 	}
-	x, err := sys.solve()
-	if err != nil {
-		return err
+	return row
+}
+
+// store takes the constants and reactions of problem p from the solution x.
+func (e *Exact) store(p odeProblem, l exactLayout, x []float64) {
+	for j := range e.stretches {
+		e.solution(p, j).setConstants(x[l.firstCol[j] : l.firstCol[j]+p.order])
 	}
-	for j := 0; j < nStretch; j++ {
-		copy(sol(j).coeff, x[j*p.order:(j+1)*p.order])
+	for q, r := range l.held {
+		e.reactions[r.support].Force[r.dof] = x[l.heldCol[q]]
 	}
-	for q, r := range held {
-		e.reactions[r.support].Force[r.dof] = x[p.order*nStretch+q]
+}
+
+// solution is the closed form of problem p on stretch j.
+func (e *Exact) solution(p odeProblem, j int) *stretchSolution {
+	if p.order == exactBar.order {
+		return &e.stretches[j].bar
 	}
-	return nil
+	return &e.stretches[j].beam
 }
 
 // index returns the position of d among the problem's motions, or −1.

@@ -1,5 +1,7 @@
 package fem
 
+import "sync"
+
 // Member is a model made ready for solving: validated once, its key points
 // found and its loads gathered once. Every solve of a model starts from one,
 // so the finite element solve, the exact solution and the meshes built for
@@ -10,6 +12,10 @@ type Member struct {
 	loads Loads
 	// mechanism is why the supports cannot hold the member, or nil.
 	mechanism error
+	// The exact solution, found once on first use.
+	exactOnce sync.Once
+	exact     *Exact
+	exactErr  error
 }
 
 // Prepare validates m and gathers what every solve of it needs. A model
@@ -51,10 +57,14 @@ func (p *Member) Solve(mesh Mesh) (*Solution, error) {
 }
 
 // Exact integrates the governing equations of the member in closed form
-// (see SolveExact).
+// (see SolveExact), once: later calls return the same solution.
 func (p *Member) Exact() (*Exact, error) {
-	if p.mechanism != nil {
-		return nil, p.mechanism
-	}
-	return solveExact(p)
+	p.exactOnce.Do(func() {
+		if p.mechanism != nil {
+			p.exactErr = p.mechanism
+			return
+		}
+		p.exact, p.exactErr = solveExact(p)
+	})
+	return p.exact, p.exactErr
 }

@@ -59,29 +59,57 @@ func BuildMesh(m *Model) (Mesh, error) {
 	return p.Mesh(), nil
 }
 
-// Mesh divides the member as its Model.Mesh asks (see BuildMesh).
+// Mesh divides the member as its Model.Mesh asks (see BuildMesh), or, when
+// the settings leave it to Stave, as the default mesh rule does
+// (automesh.go).
 func (p *Member) Mesh() Mesh {
+	if p.model.Mesh.Automatic() {
+		n, note := p.automaticCounts()
+		mesh := p.meshWith(n)
+		mesh.Automatic, mesh.Note = true, note
+		return mesh
+	}
+	return p.meshWith(p.requestedCounts())
+}
+
+// requestedCounts are the element counts per stretch of p.keys that the
+// model's mesh settings ask for: max(1, round(Elements·len/L)), or
+// ceil(len/MaxElementLength) when that is finer.
+func (p *Member) requestedCounts() []int {
 	m, keys := &p.model, p.keys
 	L := m.Length()
-	x := make([]float64, 0, len(keys)+max(m.Mesh.Elements, 0))
-	x = append(x, keys[0])
-	for i := 1; i < len(keys); i++ {
-		a, b := keys[i-1], keys[i]
-		span := b - a
-		n := 1
+	n := make([]int, len(keys)-1)
+	for j := range n {
+		span := keys[j+1] - keys[j]
+		n[j] = 1
 		if m.Mesh.Elements > 0 {
-			n = max(n, int(math.Round(float64(m.Mesh.Elements)*span/L)))
+			n[j] = max(n[j], int(math.Round(float64(m.Mesh.Elements)*span/L)))
 		}
 		if h := m.Mesh.MaxElementLength; h > 0 {
 			// The factor keeps a stretch of exactly k·h from getting k+1 elements by round-off.
-			n = max(n, int(math.Ceil(span/h*(1-1e-12))))
+			n[j] = max(n[j], int(math.Ceil(span/h*(1-1e-12))))
 		}
-		for j := 1; j < n; j++ {
-			x = append(x, a+span*float64(j)/float64(n))
+	}
+	return n
+}
+
+// meshWith divides stretch j of p.keys uniformly into n[j] elements.
+func (p *Member) meshWith(n []int) Mesh {
+	keys := p.keys
+	total := 1
+	for _, c := range n {
+		total += c
+	}
+	x := make([]float64, 0, total)
+	x = append(x, keys[0])
+	for j, c := range n {
+		a, b := keys[j], keys[j+1]
+		for i := 1; i < c; i++ {
+			x = append(x, a+(b-a)*float64(i)/float64(c))
 		}
 		x = append(x, b)
 	}
-	return meshOn(m, x)
+	return meshOn(&p.model, x)
 }
 
 // MeshFromNodes builds a mesh on caller-chosen node positions x (increasing,

@@ -49,7 +49,7 @@ func TestBuildMesh(t *testing.T) {
 }
 
 func TestKeyPointsMergeAndSegments(t *testing.T) {
-	m := mixedModel(0)
+	m := mixedModel(1)            // one element per stretch
 	m.Supports[1].X = 3.2 + 1e-14 // closer than 1e-12·L to the point load below
 	m.PointLoads = append(m.PointLoads, PointLoad{X: 3.2, Transverse: -1})
 	mesh, err := BuildMesh(m)

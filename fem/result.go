@@ -46,6 +46,10 @@ type Element struct {
 type Mesh struct {
 	X        []float64
 	Elements []Element
+	// Automatic says Stave chose the mesh (the default mesh rule), and Note
+	// how, in words for reports.
+	Automatic bool
+	Note      string
 }
 
 // Reaction is the force a support exerts on the member, in member axes.

@@ -135,13 +135,13 @@ func TestValidateHostileInput(t *testing.T) {
 		// stretch: 300,000 point loads need at least 300,012 × 23,600 B =
 		// 7.08 GB; 4,294,967,296 / 23,600 = 181,990 key points fit.
 		{"300,000 point loads", func(m *Model) { m.PointLoads = manyPointLoads(300_000, 3) }, place(ModelItem, -1, NoProperty),
-			"the model would need at least 7.1 GB of memory for its 3e+05 key points (ends and breaks of segments, supports, point loads and load points), more than the 4.3 GB allowed: use fewer supports, point loads and load points, or split the member into several models (up to about 1.82e+05 key points fit)"},
+			"the model would need at least 8.9 GB of memory for its 3e+05 key points (ends and breaks of segments, supports, point loads and load points), more than the 4.3 GB allowed: use fewer supports, point loads and load points, or split the member into several models (up to about 1.45e+05 key points fit)"},
 		// 100,000 point loads take 2.32 GB, which leaves room for
 		// (4,294,967,296 − 100,012 × 23,200) / 400 = 4,936,722 elements.
 		{"ten million elements and 100,000 point loads", func(m *Model) {
 			m.PointLoads, m.Mesh.Elements = manyPointLoads(100_000, 3), 10_000_000
 		}, place(MeshItem, -1, ElementsProperty),
-			"the mesh would need about 6.4 GB of memory (1.01e+07 elements), more than the 4.3 GB allowed: ask for fewer elements or a longer maximum element length (up to about 4.94e+06 elements fit)"},
+			"the mesh would need about 7.0 GB of memory (1.01e+07 elements), more than the 4.3 GB allowed: ask for fewer elements or a longer maximum element length (up to about 3.44e+06 elements fit)"},
 	})
 }
 
@@ -263,13 +263,17 @@ func TestMemoryPerStage(t *testing.T) {
 			t.Errorf("order %d: the stages allocate %.0f B per element, more than stagesBytesPerElement = %d", order, perElement, stagesBytesPerElement)
 		}
 	}
-	// Per key point, one element per stretch: Solve from 1,000 to 2,000 key
-	// points of each kind; Summarize with the exact solution from 125 to
-	// 250 (the exact solution's dense system makes more too slow for a test).
+	// Per key point, one element per stretch: Solve and SolveExact from
+	// 1,000 to 2,000 key points of each kind; Summarize with the exact
+	// solution from 125 to 250.
 	for _, kind := range []string{"segments", "supports", "point loads", "load points"} {
 		solve := func(n int) (float64, int) {
 			m := keyPointModel(kind, n)
 			return allocated(t, func() error { _, err := Solve(m); return err }), len(KeyPoints(m))
+		}
+		exact := func(n int) (float64, int) {
+			m := keyPointModel(kind, n)
+			return allocated(t, func() error { _, err := SolveExact(m); return err }), len(KeyPoints(m))
 		}
 		summary := func(n int) (float64, int) {
 			m := keyPointModel(kind, n)
@@ -282,6 +286,11 @@ func TestMemoryPerStage(t *testing.T) {
 				t.Fatal(err)
 			}
 			return allocated(t, func() error { Summarize(s, e); return nil }), len(KeyPoints(m))
+		}
+		if exactPerKey := slope(exact(1000))(exact(2000)); exactPerKey > exactBytesPerKeyPoint {
+			t.Errorf("%s: SolveExact allocates %.0f B per key point, more than exactBytesPerKeyPoint = %d", kind, exactPerKey, exactBytesPerKeyPoint)
+		} else {
+			t.Logf("%s: SolveExact allocates %.0f B per key point", kind, exactPerKey)
 		}
 		solvePerKey, summaryPerKey := slope(solve(1000))(solve(2000)), slope(summary(125))(summary(250))
 		t.Logf("%s: Solve allocates %.0f B per key point, Summarize %.0f", kind, solvePerKey, summaryPerKey)
@@ -324,7 +333,8 @@ func allocated(t *testing.T, run func() error) float64 {
 // element per stretch.
 func keyPointModel(kind string, n int) *Model {
 	L := float64(n)
-	m := &Model{Segments: []Segment{testSegment(0, L)}, Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}}}
+	m := &Model{Segments: []Segment{testSegment(0, L)}, Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+		Mesh: MeshSettings{Elements: 1}} // one element per stretch
 	switch kind {
 	case "segments":
 		m.Segments = nil

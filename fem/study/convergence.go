@@ -131,13 +131,7 @@ func prepare(m *fem.Model, what string) (*fem.Exact, []float64, error) {
 	if err != nil {
 		return nil, nil, fmt.Errorf("%s needs the exact solution: %w", what, err)
 	}
-	coarse := *m
-	coarse.Mesh = fem.MeshSettings{BarOrder: m.Mesh.BarOrder}
-	mesh, err := fem.BuildMesh(&coarse)
-	if err != nil {
-		return nil, nil, fmt.Errorf("%s: %w", what, err)
-	}
-	return exact, mesh.X, nil
+	return exact, fem.KeyPoints(m), nil
 }
 
 // subdivide splits every interval of nodes into k equal parts.

@@ -1,0 +1,104 @@
+package fem
+
+import "math"
+
+// The default mesh. When a model leaves the mesh to Stave (Mesh.Automatic),
+// Stave sizes the elements of every stretch from the exact solution of the
+// same model and the interpolation error of each element kind, so that for
+// every field it reports (u, w, θ, N, V, M and each stress) the finite
+// element value stays within MeshAccuracy of that field's largest magnitude
+// everywhere: the FE extreme is then within MeshAccuracy of the exact one,
+// and lies where the field comes within that margin of its extreme, next
+// to the exact place. The element kinds' error bounds are their own
+// (Formulation.elementLength); each bound is used with a safety factor of
+// two, and TestDefaultMeshRule checks the rule on random models by sampling.
+
+// MeshAccuracy is the accuracy the default mesh is chosen for, relative to
+// each field's largest magnitude.
+const MeshAccuracy = 0.005
+
+// maxAutomaticElements bounds the default mesh; a model whose rule asks for
+// more gets this many, shared out in proportion, and the mesh says so.
+const maxAutomaticElements = 200_000
+
+// fallbackElements is the default mesh's size when there is no exact
+// solution to size it from (the model cannot be solved in closed form).
+const fallbackElements = 100
+
+// Automatic reports whether the settings leave the mesh to Stave: no element
+// count and no element length asked for.
+func (s MeshSettings) Automatic() bool { return s.Elements <= 0 && s.MaxElementLength <= 0 }
+
+// fieldScales are the largest magnitudes of the exact fields over the member.
+type fieldScales [quantityCount]float64
+
+// exactScales samples e at both ends and seven inner points of every
+// stretch: its fields are polynomials of degree five at most there, so the
+// largest magnitude found is within a few per cent of the true one, which
+// is all a scale for the mesh rule needs.
+func exactScales(e *Exact) fieldScales {
+	var s fieldScales
+	for j := range e.stretches {
+		st := &e.stretches[j]
+		for k := 0; k <= 8; k++ {
+			side := Right
+			if k == 8 {
+				side = Left
+			}
+			f := e.At(st.start+st.length*float64(k)/8, side)
+			for q := range s {
+				s[q] = math.Max(s[q], math.Abs(Quantity(q).Of(&f)))
+			}
+		}
+	}
+	return s
+}
+
+// sizeLimit is the largest h with coefficient·h^power ≤ allowed: an element
+// length that keeps an interpolation error of that form within allowed.
+// When nothing is allowed (the field is zero everywhere) or nothing is
+// wrong (a zero coefficient), any length will do.
+func sizeLimit(coefficient float64, power float64, allowed float64) float64 {
+	if coefficient == 0 || allowed == 0 {
+		return math.Inf(1)
+	}
+	return math.Pow(allowed/math.Abs(coefficient), 1/power)
+}
+
+// automaticCounts are the default mesh's element counts per stretch of
+// p.keys, and a note on how they were found.
+func (p *Member) automaticCounts() ([]int, string) {
+	n := make([]int, len(p.keys)-1)
+	e, err := p.Exact()
+	if err != nil {
+		L := p.model.Length()
+		for j := range n {
+			n[j] = max(1, int(math.Round(fallbackElements*(p.keys[j+1]-p.keys[j])/L)))
+		}
+		return n, "automatic: no exact solution to size it from, so about 100 elements spread by length"
+	}
+	scale := exactScales(e)
+	bar, beam := p.model.Formulations()
+	sections := sectionTable(&p.model, p.loads.TemperatureChange)
+	total := 0
+	for j := range n {
+		a, b := p.keys[j], p.keys[j+1]
+		d := elementData{start: a, length: b - a, sectionData: sections[p.model.SegmentAt(0.5*(a+b))],
+			axialLoad: p.loads.Axial[j], transverseLoad: p.loads.Transverse[j]}
+		// Half the accuracy: the bounds are estimates.
+		tol := MeshAccuracy / 2
+		h := min(bar.elementLength(&d, &scale, tol), beam.elementLength(&d, &scale, tol))
+		n[j] = 1
+		if h < d.length {
+			n[j] = int(min(math.Ceil(d.length/h), maxAutomaticElements))
+		}
+		total += n[j]
+	}
+	if total <= maxAutomaticElements {
+		return n, "automatic, for fields within 0.5 % of the exact extremes"
+	}
+	for j := range n {
+		n[j] = max(1, n[j]*maxAutomaticElements/total)
+	}
+	return n, "automatic, limited to 200,000 elements: the 0.5 % rule would need more"
+}

@@ -1,0 +1,209 @@
+package fem
+
+import (
+	"fmt"
+	"math"
+	"math/rand/v2"
+	"testing"
+
+	"gonum.org/v1/gonum/mat"
+)
+
+// denseEquations is the exact solution's system in a dense gonum matrix,
+// solved the way Stave did before the banded solver: Ruiz equilibration and
+// gonum's dense LU with partial pivoting. It is the reference the banded
+// path is checked against.
+type denseEquations struct {
+	a *mat.Dense
+	b []float64
+}
+
+func (s *denseEquations) add(row, col int, v float64) { s.a.Set(row, col, s.a.At(row, col)+v) }
+func (s *denseEquations) rhs(row int, v float64)      { s.b[row] += v }
+
+func (s *denseEquations) solve() ([]float64, error) {
+	n := len(s.b)
+	rowScale, colScale := make([]float64, n), make([]float64, n)
+	for i := range rowScale {
+		rowScale[i], colScale[i] = 1, 1
+	}
+	for range equilibrationPasses {
+		for i := 0; i < n; i++ {
+			big := 0.0
+			for j := 0; j < n; j++ {
+				big = math.Max(big, math.Abs(s.a.At(i, j)))
+			}
+			if big > 0 {
+				f := 1 / math.Sqrt(big)
+				rowScale[i] *= f
+				for j := 0; j < n; j++ {
+					s.a.Set(i, j, s.a.At(i, j)*f)
+				}
+			}
+		}
+		for j := 0; j < n; j++ {
+			big := 0.0
+			for i := 0; i < n; i++ {
+				big = math.Max(big, math.Abs(s.a.At(i, j)))
+			}
+			if big > 0 {
+				f := 1 / math.Sqrt(big)
+				colScale[j] *= f
+				for i := 0; i < n; i++ {
+					s.a.Set(i, j, s.a.At(i, j)*f)
+				}
+			}
+		}
+	}
+	rhs := mat.NewVecDense(n, nil)
+	for i := range s.b {
+		rhs.SetVec(i, s.b[i]*rowScale[i])
+	}
+	var lu mat.LU
+	lu.Factorize(s.a)
+	if c := lu.Cond(); !(c < maxCondition) {
+		return nil, fmt.Errorf("dense: condition %.3g", c)
+	}
+	var y mat.VecDense
+	if err := lu.SolveVecTo(&y, false, rhs); err != nil {
+		return nil, err
+	}
+	x := make([]float64, n)
+	for j := range x {
+		x[j] = y.AtVec(j) * colScale[j]
+	}
+	return x, nil
+}
+
+// denseExact solves m's exact solution with the dense reference in place of
+// the banded system.
+func denseExact(t *testing.T, m *Model) *Exact {
+	t.Helper()
+	e, err := SolveExact(m) // sets up the stretches and key points
+	if err != nil {
+		t.Fatal(err)
+	}
+	points := exactKeyPoints(e, m)
+	for _, p := range []odeProblem{exactBar, exactBeam} {
+		l := e.layout(p, points)
+		sys := &denseEquations{a: mat.NewDense(l.unknowns, l.unknowns, nil), b: make([]float64, l.unknowns)}
+		e.equations(p, points, l, sys)
+		x, err := sys.solve()
+		if err != nil {
+			t.Fatal(err)
+		}
+		e.store(p, l, x)
+	}
+	return e
+}
+
+// exactKeyPoints gathers the loads and restraints at e's key points again.
+func exactKeyPoints(e *Exact, m *Model) []keyPoint {
+	p, err := Prepare(m)
+	if err != nil {
+		panic(err)
+	}
+	return e.keyPoints(p)
+}
+
+// randomKeyPointModel is a continuous beam of a few spans on pinned and
+// roller supports, some springs, with many point loads and load vertices:
+// many stretches, so the band matters.
+func randomKeyPointModel(rnd *rand.Rand) *Model {
+	L := 5 + 20*rnd.Float64()
+	m := &Model{Mesh: MeshSettings{Elements: 10}}
+	segs := 1 + rnd.IntN(4)
+	for i := range segs {
+		m.Segments = append(m.Segments, Segment{
+			Start: L * float64(i) / float64(segs), End: L * float64(i+1) / float64(segs),
+			Section:  Section{Area: 1e-3 * (1 + rnd.Float64()), SecondMoment: 1e-5 * math.Pow(10, 2*rnd.Float64()), FibreDistance: 0.1},
+			Material: Material{Elastic: 2e11 * (0.2 + rnd.Float64()), Density: 7850},
+		})
+	}
+	m.Segments[segs-1].End = L
+	spans := 1 + rnd.IntN(5)
+	for i := 0; i <= spans; i++ {
+		s := Support{X: L * float64(i) / float64(spans), Kind: Roller}
+		switch {
+		case i == 0:
+			s.Kind = Pinned
+		case rnd.IntN(4) == 0:
+			s.Kind, s.Stiffness = Spring, [3]float64{0, 1e6 * (1 + rnd.Float64()), 0}
+		case rnd.IntN(4) == 0:
+			s.Settlement[Transverse] = -0.005 * rnd.Float64()
+		}
+		m.Supports = append(m.Supports, s)
+	}
+	for range 5 + rnd.IntN(60) {
+		m.PointLoads = append(m.PointLoads, PointLoad{X: L * rnd.Float64(), Axial: 1e3 * rnd.NormFloat64(), Transverse: -1e4 * rnd.Float64(), Moment: 1e3 * rnd.NormFloat64()})
+	}
+	d := DistributedLoad{Direction: Transverse}
+	x := 0.0
+	for x < L {
+		d.Points = append(d.Points, LoadPoint{X: x, Intensity: -1e4 * rnd.Float64()})
+		x += L * (0.01 + 0.1*rnd.Float64())
+	}
+	d.Points = append(d.Points, LoadPoint{X: L, Intensity: -1e4 * rnd.Float64()})
+	m.DistributedLoad = []DistributedLoad{d}
+	m.Gravity = [2]float64{0, -StandardGravity}
+	m.TemperatureChange = 20 * rnd.NormFloat64()
+	return m
+}
+
+// The banded exact solver keeps the dense path's accuracy: on random
+// continuous beams with up to a few hundred stretches both give the same
+// reactions and fields to a tolerance of the condition's order (gonum's
+// dense LU is the reference library).
+func TestExactBandedAgainstDense(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(11, 12))
+	for trial := range 60 {
+		m := randomKeyPointModel(rnd)
+		t.Run(fmt.Sprintf("trial %d", trial), func(t *testing.T) {
+			banded, err := SolveExact(m)
+			if err != nil {
+				t.Fatal(err)
+			}
+			dense := denseExact(t, m)
+			scale := 0.0
+			for _, r := range dense.Reactions() {
+				for _, f := range r.Force {
+					scale = max(scale, math.Abs(f))
+				}
+			}
+			for i, r := range banded.Reactions() {
+				for d, f := range r.Force {
+					if want := dense.Reactions()[i].Force[d]; math.Abs(f-want) > 1e-9*scale {
+						t.Errorf("reaction %d %s: banded %.12g, dense %.12g", i+1, Dof(d), f, want)
+					}
+				}
+			}
+			var fieldScale Fields
+			xs := make([]float64, 201)
+			for k := range xs {
+				xs[k] = m.Length() * float64(k) / 200
+				g := dense.At(xs[k], Right)
+				for _, q := range Quantities() {
+					setMax(&fieldScale, q, math.Abs(q.Of(&g)))
+				}
+			}
+			for _, x := range xs {
+				f, g := banded.At(x, Right), dense.At(x, Right)
+				for _, q := range Quantities() {
+					if d := math.Abs(q.Of(&f) - q.Of(&g)); d > 1e-8*q.Of(&fieldScale) {
+						t.Fatalf("%s at x = %.4g m: banded %.12g, dense %.12g", q, x, q.Of(&f), q.Of(&g))
+					}
+				}
+			}
+		})
+	}
+}
+
+// setMax raises quantity q of f to v when v is larger.
+func setMax(f *Fields, q Quantity, v float64) {
+	ptr := map[Quantity]*float64{
+		QAxialDisplacement: &f.AxialDisplacement, QDeflection: &f.Deflection, QRotation: &f.Rotation,
+		QAxialForce: &f.AxialForce, QShearForce: &f.ShearForce, QBendingMoment: &f.BendingMoment,
+		QAxialStress: &f.AxialStress, QBendingStress: &f.BendingStress, QCombinedStress: &f.CombinedStress,
+	}[q]
+	*ptr = max(*ptr, v)
+}
