@@ -207,3 +207,20 @@ func setMax(f *Fields, q Quantity, v float64) {
 	}[q]
 	*ptr = max(*ptr, v)
 }
+
+// BenchmarkExactKeyPoints times SolveExact on a two-span beam carrying n
+// point loads: the banded system keeps it linear in the key points (target:
+// 10,000 key points in under 50 ms; compare the rows' ns/op in one run).
+func BenchmarkExactKeyPoints(b *testing.B) {
+	for _, n := range []int{100, 1000, 10000} {
+		m := keyPointModel("point loads", n)
+		m.Supports = append(m.Supports, Support{X: m.Length() / 2, Kind: Roller})
+		b.Run(fmt.Sprintf("keypoints=%d", n), func(b *testing.B) {
+			for b.Loop() {
+				if _, err := SolveExact(m); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}
