@@ -181,30 +181,18 @@ func pivotMessage(nodes []float64, form Formulation, pe *band.PivotError) error 
 
 // elementTable gathers each element's geometry and section and the loads l
 // along it, and returns the point loads at each node apart. l must be
-// gathered on key points that hold every node of mesh that is a key point
-// (KeyPoints does). A point load is placed at the node of fine that holds it
-// (so the key-point mesh and the fine mesh see it at the same x); when no
-// node of mesh is there, it lies inside an element.
+// gathered on key points that hold every node of mesh (KeyPoints does, for
+// the key-point mesh and for the fine one). A point load is placed at the
+// node of fine that holds it (so the key-point mesh and the fine mesh see it
+// at the same x); when no node of mesh is there, it lies inside an element.
 func elementTable(m *Model, mesh Mesh, fine []float64, l *Loads) ([]elementData, [][3]float64) {
 	els := make([]elementData, len(mesh.Elements))
 	nodal := make([][3]float64, len(mesh.X))
 	sections := sectionTable(m, l.TemperatureChange)
-	j := 0 // the stretch of l holding the element's start
 	for i, e := range mesh.Elements {
-		for j+1 < len(l.Axial) && l.Keys[j+1] <= e.Start {
-			j++
-		}
-		k := j // the stretch of l holding the element's end
-		for k+1 < len(l.Axial) && l.Keys[k+1] < e.End {
-			k++
-		}
-		els[i] = elementData{
-			start:          e.Start,
-			length:         e.End - e.Start,
-			sectionData:    sections[e.Segment],
-			axialLoad:      [2]float64{l.AxialAt(j, e.Start), l.AxialAt(k, e.End)},
-			transverseLoad: [2]float64{l.TransverseAt(j, e.Start), l.TransverseAt(k, e.End)},
-		}
+		els[i] = elementData{start: e.Start, length: e.End - e.Start, sectionData: sections[e.Segment]}
+		d := &els[i]
+		d.axialLoad, d.transverseLoad, d.breaks = l.loadsIn(e.Start, e.End)
 	}
 	for _, p := range l.Points {
 		p.X = fine[nearest(fine, p.X)]

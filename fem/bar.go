@@ -76,12 +76,24 @@ func (d *elementData) barStiffness(order ElementOrder) localMatrix {
 func (d *elementData) barLoads(order ElementOrder) localVector {
 	var f localVector
 	h := d.length
-	for _, g := range gauss3 {
-		n, _ := barShape(order, g.xi, h)
-		p := d.axialLoad[0] + (d.axialLoad[1]-d.axialLoad[0])*g.xi
-		for a := range order.nodes() {
-			f[a] += g.w * h * n[a] * p
+	if len(d.breaks) == 0 {
+		for _, g := range gauss3 {
+			n, _ := barShape(order, g.xi, h)
+			p := d.axialLoad[0] + (d.axialLoad[1]-d.axialLoad[0])*g.xi
+			for a := range order.nodes() {
+				f[a] += g.w * h * n[a] * p
+			}
 		}
+	} else {
+		d.pieces(d.start, d.start+h, func(pc loadPiece) {
+			for _, g := range gauss3 {
+				n, _ := barShape(order, (pc.start+g.xi*pc.length-d.start)/h, h)
+				p := pc.p0 + (pc.p1-pc.p0)*g.xi
+				for a := range order.nodes() {
+					f[a] += g.w * pc.length * n[a] * p
+				}
+			}
+		})
 	}
 	thermal := d.axialRigidity * d.thermalStrain
 	f[0] -= thermal
@@ -95,6 +107,27 @@ func (d *elementData) barLoads(order ElementOrder) localVector {
 	return f
 }
 
+// linearBarLoadsOn is ∫N·p dx over [x0, x1] within d for the linear bar
+// element from x0 to x1 under d's axial line load (without its thermal
+// forces), by pieces where the load breaks.
+func (d *elementData) linearBarLoadsOn(x0, x1 float64) [2]float64 {
+	h := x1 - x0
+	if d.smooth(x0, x1) {
+		p0, p1 := d.axialAt(x0, Right), d.axialAt(x1, Left)
+		return [2]float64{h * (2*p0 + p1) / 6, h * (p0 + 2*p1) / 6}
+	}
+	var f [2]float64
+	d.pieces(x0, x1, func(pc loadPiece) {
+		for _, g := range gauss3 {
+			xi := (pc.start + g.xi*pc.length - x0) / h
+			p := pc.p0 + (pc.p1-pc.p0)*g.xi
+			f[0] += g.w * pc.length * (1 - xi) * p
+			f[1] += g.w * pc.length * xi * p
+		}
+	})
+	return f
+}
+
 // elementLength bounds the interpolation error of the bar (Strang & Fix, An
 // Analysis of the Finite Element Method, ch. 1, interpolation error of
 // piecewise polynomials, from memory): on a linear element N is constant,
@@ -104,7 +137,7 @@ func (d *elementData) barLoads(order ElementOrder) localVector {
 // The axial stress follows N/A; the combined stress takes half the
 // tolerance, the beam's error taking the other half.
 func (f barFormulation) elementLength(d *elementData, s *fieldScales, tol float64) float64 {
-	p := max(math.Abs(d.axialLoad[0]), math.Abs(d.axialLoad[1]))
+	p := max(math.Abs(d.axialLoad[0]), math.Abs(d.axialLoad[1])) // the default mesh sizes stretches of linear load
 	slope := math.Abs(d.axialLoad[1]-d.axialLoad[0]) / d.length
 	ea, area := d.axialRigidity, d.area
 	if f.order == QuadraticBar {

@@ -71,13 +71,38 @@ func (d *elementData) beamStiffness() localMatrix {
 // beamLoads is the consistent nodal load vector ∫N·q dx, plus N·P + N'·C
 // for the point loads inside (the work of a moment C is C·w').
 func (d *elementData) beamLoads() localVector {
-	f := hermiteLoads(d.length, d.transverseLoad[0], d.transverseLoad[1])
+	f := d.hermiteLoadsOn(d.start, d.start+d.length)
 	for _, p := range d.points {
 		n, d1, _, _ := hermite((p.X-d.start)/d.length, d.length)
 		for a := range f {
 			f[a] += n[a]*p.Transverse + d1[a]*p.Moment
 		}
 	}
+	return f
+}
+
+// hermiteLoadsOn is ∫N·q dx over [x0, x1] within d for the Hermite shape
+// functions of an element from x0 to x1 under d's line load: hermiteLoads
+// when the load is linear there, else the sum over its pieces by the
+// 3-point rule (exact for a cubic times a linear load).
+func (d *elementData) hermiteLoadsOn(x0, x1 float64) localVector {
+	h := x1 - x0
+	if x0 == d.start && x1 == d.start+d.length {
+		h = d.length // the element itself: its own length, not a difference
+	}
+	if d.smooth(x0, x1) {
+		return hermiteLoads(h, d.transverseAt(x0, Right), d.transverseAt(x1, Left))
+	}
+	var f localVector
+	d.pieces(x0, x1, func(pc loadPiece) {
+		for _, g := range gauss3 {
+			n := hermiteValues((pc.start+g.xi*pc.length-x0)/h, h)
+			q := pc.q0 + (pc.q1-pc.q0)*g.xi
+			for a := range f {
+				f[a] += g.w * pc.length * n[a] * q
+			}
+		}
+	})
 	return f
 }
 

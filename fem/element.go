@@ -67,13 +67,17 @@ func (m *Model) Formulations() (bar, beam Formulation) {
 }
 
 // elementData is what an element needs from the model: geometry, section,
-// material and the loads acting along it. Loads are linear within an element
-// because every break point of a distributed load is a node.
+// material and the loads acting along it. An element of the fine mesh has
+// linear loads, as every break point of a distributed load is a node; a
+// stretch of the key-point system may hold break points and point loads
+// (pieces.go).
 type elementData struct {
 	start, length float64 // m
 	sectionData
-	axialLoad      [2]float64 // p at start and end, N/m
-	transverseLoad [2]float64 // q at start and end, N/m
+	axialLoad      [2]float64 // p just inside the start and the end, N/m
+	transverseLoad [2]float64 // q just inside the start and the end, N/m
+	// breaks are where the line loads change slope or jump inside, in order.
+	breaks []loadBreak
 	// points are the point loads strictly inside the element, which only
 	// the key-point mesh has: Solve keeps loads-only key points out of it.
 	points []PointLoad

@@ -65,7 +65,9 @@ type stretchRefiner struct {
 	fields      []elementField
 	sectionData // of the stretch
 	order       ElementOrder
-	// Loads are linear on the stretch: intensity at start plus slope·(x − start).
+	// stretch is the stretch being refined. Its loads are linear when it
+	// has no breaks: intensity at start plus slope·(x − start).
+	stretch                     *elementData
 	start                       float64
 	axial, axialSlope           float64 // N/m, N/m²
 	transverse, transverseSlope float64 // N/m, N/m²
@@ -168,6 +170,7 @@ func (r *stretchRefiner) each(jobs []refineJob, stretches []elementData, do func
 // position).
 func (r *stretchRefiner) setup(d *elementData) {
 	r.sectionData = d.sectionData
+	r.stretch = d
 	r.start = d.start
 	r.axial, r.axialSlope = d.axialLoad[0], (d.axialLoad[1]-d.axialLoad[0])/d.length
 	r.transverse, r.transverseSlope = d.transverseLoad[0], (d.transverseLoad[1]-d.transverseLoad[0])/d.length
@@ -209,22 +212,28 @@ func (r *stretchRefiner) middle(lo, hi int, c taylor) (m int, left, right taylor
 	m = lo + (hi-lo)/2
 	xl, xm, xh := r.x[lo], r.x[m], r.x[hi]
 	a, b := xm-xl, xh-xm
-	pl, pm, ph := r.axialAt(xl), r.axialAt(xm), r.axialAt(xh)
-	ql, qm, qh := r.transverseAt(xl), r.transverseAt(xm), r.transverseAt(xh)
 
 	ia, ib := 1/a, 1/b // one division each; the rest multiplies
 
-	// Bar: the hat at m, ∫p·φ from the linear-load consistent forces of the
-	// two elements (its thermal forces cancel).
-	cu := (a*(pl+2*pm) + b*(2*pm+ph)) / (6 * r.axialRigidity * (ia + ib))
-
-	// Beam: the end block of the left element plus the start block of the
-	// right one, loaded by their consistent forces at m.
+	// Bar: the hat at m, ∫p·φ from the consistent forces of the two
+	// elements (its thermal forces cancel). Beam: the end block of the left
+	// element plus the start block of the right one, loaded by their
+	// consistent forces at m.
+	var cu float64
+	var fl, fr localVector
+	if s := r.stretch; len(s.breaks) == 0 {
+		pl, pm, ph := r.axialAt(xl), r.axialAt(xm), r.axialAt(xh)
+		ql, qm, qh := r.transverseAt(xl), r.transverseAt(xm), r.transverseAt(xh)
+		cu = (a*(pl+2*pm) + b*(2*pm+ph)) / (6 * r.axialRigidity * (ia + ib))
+		fl, fr = hermiteLoads(a, ql, qm), hermiteLoads(b, qm, qh)
+	} else {
+		cu = (s.linearBarLoadsOn(xl, xm)[1] + s.linearBarLoadsOn(xm, xh)[0]) / (r.axialRigidity * (ia + ib))
+		fl, fr = s.hermiteLoadsOn(xl, xm), s.hermiteLoadsOn(xm, xh)
+	}
 	ei := r.flexuralRigidity
 	k11 := 12 * ei * (ia*ia*ia + ib*ib*ib)
 	k12 := 6 * ei * (ib*ib - ia*ia)
 	k22 := 4 * ei * (ia + ib)
-	fl, fr := hermiteLoads(a, ql, qm), hermiteLoads(b, qm, qh)
 	fw, ft := fl[2]+fr[0], fl[3]+fr[1]
 	if len(r.points) > 0 {
 		pu, pw, pt := r.pointsOn(lo, m, hi)
@@ -263,8 +272,12 @@ func (r *stretchRefiner) finish(e int, c taylor) {
 	strain := c.slope - r.thermalStrain
 	bar := strain * strain
 	if r.order == QuadraticBar {
-		d := elementData{length: h, sectionData: sectionData{axialRigidity: r.axialRigidity},
-			axialLoad: [2]float64{r.axialAt(r.x[e]), r.axialAt(r.x[e+1])}}
+		// Break points of the loads are nodes: the load is linear here.
+		p := [2]float64{r.axialAt(r.x[e]), r.axialAt(r.x[e+1])}
+		if len(r.stretch.breaks) > 0 {
+			p = [2]float64{r.stretch.axialAt(r.x[e], Right), r.stretch.axialAt(r.x[e+1], Left)}
+		}
+		d := elementData{length: h, sectionData: sectionData{axialRigidity: r.axialRigidity}, axialLoad: p}
 		k, load := d.barStiffness(QuadraticBar), d.barLoads(QuadraticBar)
 		f.bubble = load[1] / k[1][1]
 		// The bubble's strain (4 − 8ξ)·bubble/h is orthogonal to the constant part.
@@ -311,6 +324,8 @@ func (r *stretchRefiner) pointsOn(lo, m, hi int) (bar, w, theta float64) {
 	return bar, w, theta
 }
 
+// axialAt and transverseAt are the line loads at x of a stretch without
+// breaks.
 func (r *stretchRefiner) axialAt(x float64) float64 {
 	return r.axial + r.axialSlope*(x-r.start)
 }
@@ -322,7 +337,7 @@ func (r *stretchRefiner) transverseAt(x float64) float64 {
 // keyNodes returns the index in x of every key point of m but the point
 // loads, in order.
 func keyNodes(m *Model, x []float64) ([]int, error) {
-	keys := keyPointsOf(m, false)
+	keys := systemKeyPoints(m)
 	idx := make([]int, len(keys))
 	for j, k := range keys {
 		idx[j] = nearest(x, k)

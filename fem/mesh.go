@@ -12,19 +12,40 @@ import (
 // part of Stave uses: the ends, segment breaks, supports, point loads and
 // every break point of the distributed loads (Features), clamped to the
 // member, with points closer than mergeTolerance·L taken as one.
-func KeyPoints(m *Model) []float64 { return keyPointsOf(m, true) }
-
-// keyPointsOf is KeyPoints, leaving out the point loads unless withPointLoads.
-// Without them it gives the key-point mesh Solve eliminates: a point load
-// close to a support would otherwise make a short, stiff stretch there.
-func keyPointsOf(m *Model, withPointLoads bool) []float64 {
+func KeyPoints(m *Model) []float64 {
 	pts := []float64{0, m.Length()}
 	for _, f := range Features(m) {
-		if withPointLoads || f.Item.Kind != PointLoadItem {
-			pts = append(pts, f.X)
+		pts = append(pts, f.X)
+	}
+	return mergeSorted(pts, m.Length())
+}
+
+// systemKeyPoints are the key points the factorized key-point system holds:
+// those where the member itself changes, its ends, the supports and the
+// breaks between segments of different stiffness. Loads stay out of it
+// (pieces.go): a load close to a support would otherwise make a short,
+// stiff stretch there.
+func systemKeyPoints(m *Model) []float64 {
+	pts := []float64{0, m.Length()}
+	for _, s := range m.Supports {
+		pts = append(pts, s.X)
+	}
+	for i := 1; i < len(m.Segments); i++ {
+		if !sameStiffness(m.Segments[i-1], m.Segments[i]) {
+			pts = append(pts, m.Segments[i].Start)
 		}
 	}
 	return mergeSorted(pts, m.Length())
+}
+
+// sameStiffness reports whether two segments give the solver the same
+// stretch: the same E·A, E·I and thermal expansion (a break between them
+// changes only what is read off the fields, such as stresses).
+func sameStiffness(a, b Segment) bool {
+	ea, eb := a.Material, b.Material
+	return ea.Elastic*a.Section.Area == eb.Elastic*b.Section.Area &&
+		ea.Elastic*a.Section.SecondMoment == eb.Elastic*b.Section.SecondMoment &&
+		ea.ThermalExpansion == eb.ThermalExpansion
 }
 
 // mergeSorted sorts pts, clamps them to [0, L] and keeps one point of each

@@ -162,12 +162,28 @@ func uncarry(d Dof, e *elementData, a *stretchActions) {
 func change(d Dof, e *elementData, shear float64) float64 {
 	h := e.length
 	var c float64
-	switch d {
-	case Axial:
+	switch {
+	case len(e.breaks) > 0:
+		if d == Rotation {
+			c = h * shear
+		}
+		end := e.start + h
+		e.pieces(e.start, end, func(pc loadPiece) {
+			switch d {
+			case Axial:
+				c -= pc.length * (pc.p0 + pc.p1) / 2
+			case Transverse:
+				c += pc.length * (pc.q0 + pc.q1) / 2
+			case Rotation:
+				// ∫(end − x)·q dx over the piece.
+				c += (end-pc.start-pc.length)*pc.length*(pc.q0+pc.q1)/2 + pc.length*pc.length*(2*pc.q0+pc.q1)/6
+			}
+		})
+	case d == Axial:
 		c = -h * (e.axialLoad[0] + e.axialLoad[1]) / 2
-	case Transverse:
+	case d == Transverse:
 		c = h * (e.transverseLoad[0] + e.transverseLoad[1]) / 2
-	case Rotation:
+	default:
 		c = h*shear + h*h*(2*e.transverseLoad[0]+e.transverseLoad[1])/6
 	}
 	for _, p := range e.points {

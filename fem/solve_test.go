@@ -370,12 +370,12 @@ func BenchmarkSample(b *testing.B) {
 }
 
 // The hierarchical solve keeps fine meshes as accurate as coarse ones, so
-// many elements raise no warning, nor do point loads close together (they
-// stay out of the key-point system). What remains ill-conditioned is a
-// key-point system with a very short stretch free to deform, here a patch
-// load a fraction of a millimetre long; there the warning must appear, and
-// its bound Condition·ε must cover the error measured against the exact
-// solution.
+// many elements raise no warning, nor do point loads or a patch load a
+// fraction of a millimetre long (loads stay out of the key-point system,
+// pieces.go). What remains ill-conditioned is a key-point system with a very
+// short stretch free to deform, here a stiffer segment a fraction of a
+// millimetre long; there the warning must appear, and its bound Condition·ε
+// must cover the error measured against the exact solution.
 func TestConditionWarning(t *testing.T) {
 	for _, n := range []int{20, 100_000} {
 		m := withPointLoad(testModel(Support{X: 0, Kind: Fixed}), PointLoad{X: testL, Transverse: testP})
@@ -386,15 +386,19 @@ func TestConditionWarning(t *testing.T) {
 		}
 	}
 	for _, c := range []struct {
-		name  string
-		patch bool    // a distributed load over the gap instead of two point loads
-		gap   float64 // relative to L
-		warn  bool
-	}{{"point loads", false, 1e-6, false}, {"patch load", true, 1e-3, false}, {"patch load", true, 1e-4, true}} {
+		name string
+		gap  float64 // relative to L
+		warn bool
+	}{{"point loads", 1e-6, false}, {"patch load", 1e-3, false}, {"patch load", 1e-6, false}, {"stiffer segment", 1e-4, true}} {
 		m := withPointLoad(testModel(Support{X: 0, Kind: Fixed}), PointLoad{X: 3, Transverse: testP})
-		if c.patch {
+		switch c.name {
+		case "patch load":
 			m.DistributedLoad = []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{3, testQ}, {3 + c.gap*testL, testQ}}}}
-		} else {
+		case "stiffer segment":
+			stiff := testSegment(3, 3+c.gap*testL)
+			stiff.Section.SecondMoment *= 2
+			m.Segments = []Segment{testSegment(0, 3), stiff, testSegment(3+c.gap*testL, testL)}
+		default:
 			m = withPointLoad(m, PointLoad{X: 3 + c.gap*testL, Transverse: -testP / 2})
 		}
 		m.Mesh.Elements = 1000

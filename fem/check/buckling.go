@@ -138,10 +138,11 @@ func columns(m *fem.Model) []column {
 // Euler load.
 func bucklingChecks(p probe, o Options) []Result {
 	var out []Result
+	roundOff := negligible * axialScale(p.model)
 	for k, c := range p.columns {
 		compression, where := p.compression[k].value, p.compression[k].x
-		if compression <= 0 {
-			continue
+		if compression <= roundOff {
+			continue // in tension, or compressed by round-off alone
 		}
 		span := fmt.Sprintf("%s to %s", o.Units.Format(units.Position, c.a), o.Units.Format(units.Position, c.b))
 		r := Result{Name: "Buckling, " + span, Span: [2]float64{c.a, c.b}, X: where, Value: compression}
@@ -185,4 +186,25 @@ func smallestRigidity(m *fem.Model, a, b float64) (float64, bool) {
 		smallest, largest = math.Min(smallest, ei), math.Max(largest, ei)
 	}
 	return smallest, largest > smallest
+}
+
+// negligible is the fraction of a force scale below which a force is
+// round-off.
+const negligible = 1e-9
+
+// axialScale is the size of the axial forces m can carry: its axial loads
+// summed by magnitude and the largest thermal force EA·|αΔT|, N.
+func axialScale(m *fem.Model) float64 {
+	l := fem.GatherLoads(m, fem.KeyPoints(m))
+	scale := 0.0
+	for _, pl := range l.Points {
+		scale += math.Abs(pl.Axial)
+	}
+	for j, p := range l.Axial {
+		scale += (l.Keys[j+1] - l.Keys[j]) * (math.Abs(p[0]) + math.Abs(p[1])) / 2
+	}
+	for _, s := range m.Segments {
+		scale = max(scale, s.Material.Elastic*s.Section.Area*math.Abs(s.Material.ThermalExpansion*l.TemperatureChange))
+	}
+	return scale
 }
