@@ -167,17 +167,33 @@ func PlainSystem(m *Model, mesh Mesh, problem string) (a *band.Symmetric, b []fl
 	return a, as.rhs(els, nodal, p.loads.Settlement), nil
 }
 
-// pivotMessage turns a failed pivot into a message that names the place.
+// pivotMessage turns a failed pivot into a message that names the place and
+// the likeliest cause: a stretch of the key-point system much shorter than
+// the member (a stiff piece no load can bend), else springs or stiffnesses
+// far apart.
 func pivotMessage(nodes []float64, form Formulation, pe *band.PivotError) error {
-	x := nodes[len(nodes)-1]
-	for node := range nodes {
-		if form.nodeDof(node, 0) >= pe.Row {
-			x = nodes[node]
+	node := len(nodes) - 1
+	for i := range nodes {
+		if form.nodeDof(i, 0) >= pe.Row {
+			node = i
 			break
 		}
 	}
-	return fmt.Errorf("the %s stiffness matrix is singular to working precision near x = %s (pivot %.3g of diagonal %.3g): check for very soft springs, very stiff contrasts, or supports and loads almost at one point", form.Problem(), fmtMetres(x), pe.Pivot, pe.Diagonal)
+	x := nodes[node]
+	length := nodes[len(nodes)-1] - nodes[0]
+	for i := max(node-1, 0); i < min(node+1, len(nodes)-1); i++ {
+		if h := nodes[i+1] - nodes[i]; h < shortStretch*length {
+			a, b := fmtPair(nodes[i], nodes[i+1])
+			return fmt.Errorf("the %s stiffness matrix is singular to working precision at the stretch from x = %s m to %s m, only %s long on a member of %s: supports or changes of section that close together make a piece too stiff to solve; move them apart or, if they are one, make them one point", form.Problem(), a, b, fmtMetres(h), fmtMetres(length))
+		}
+	}
+	return fmt.Errorf("the %s stiffness matrix is singular to working precision near x = %s (pivot %.3g of diagonal %.3g): check for very soft springs next to stiff parts, or stiffnesses many orders of magnitude apart", form.Problem(), fmtMetres(x), pe.Pivot, pe.Diagonal)
 }
+
+// shortStretch is the length, relative to the member, below which a stretch
+// of the key-point system is named as the cause of a singular system: its
+// stiffness grows as the cube of the inverse length.
+const shortStretch = 1e-4
 
 // elementTable gathers each element's geometry and section and the loads l
 // along it, and returns the point loads at each node apart. l must be

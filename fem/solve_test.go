@@ -426,3 +426,16 @@ func TestConditionWarning(t *testing.T) {
 		t.Errorf("condition 1e17: %q", w)
 	}
 }
+
+// A stiffer segment a nanometre long cannot be solved to working precision:
+// the refusal names that stretch and its length instead of blaming springs.
+func TestShortStiffStretchNamed(t *testing.T) {
+	m := withPointLoad(testModel(Support{X: 0, Kind: Fixed}), PointLoad{X: testL, Transverse: testP})
+	stiff := testSegment(3, 3+1e-9)
+	stiff.Section.SecondMoment *= 2
+	m.Segments = []Segment{testSegment(0, 3), stiff, testSegment(3+1e-9, testL)}
+	_, err := Solve(m)
+	if err == nil || !strings.Contains(err.Error(), "from x = 3.0 m to 3.000000001 m, only 1e-09 m long") {
+		t.Errorf("got %v, want a refusal naming the stretch from x = 3.0 m to 3.000000001 m, only 1e-09 m long", err)
+	}
+}
