@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # Compare what the shipped models give through the command line at two
-# versions of Stave: every model under testdata/ through `solve` (text, JSON,
+# versions of Stave: every model under BASE's testdata/ through `solve` (text, JSON,
 # US units), `converge --json` and every export (CSV, SVG, PNG drawing, PNG
 # calculation sheet). Text may differ only by round-off (.ci/roundoff.py:
 # numbers within one part in 1e8, 1e-6 for fitted convergence rates and
@@ -34,27 +34,30 @@ build() { # build REV DIR: the binary of commit REV (or of the work tree when RE
 
 run() { # run DIR: every output of every model into DIR
 	local dir=$1 m name
-	for m in testdata/*.json; do
+	for m in "$models"/*.json; do
 		name=$(basename "$m" .json)
 		(
 			cd "$dir"
 			export LANG=C.UTF-8 LANGUAGE=en
-			./stave solve "$OLDPWD/$m" >"$name.solve.txt" 2>&1 || echo "exit $?" >>"$name.solve.txt"
-			./stave solve --json "$OLDPWD/$m" >"$name.solve.json" 2>&1 || echo "exit $?" >>"$name.solve.json"
-			./stave solve --units US "$OLDPWD/$m" >"$name.solve-us.txt" 2>&1 || echo "exit $?" >>"$name.solve-us.txt"
-			./stave converge --json --max 64 "$OLDPWD/$m" >"$name.converge.json" 2>&1 || echo "exit $?" >>"$name.converge.json"
+			./stave solve "$m" >"$name.solve.txt" 2>&1 || echo "exit $?" >>"$name.solve.txt"
+			./stave solve --json "$m" >"$name.solve.json" 2>&1 || echo "exit $?" >>"$name.solve.json"
+			./stave solve --units US "$m" >"$name.solve-us.txt" 2>&1 || echo "exit $?" >>"$name.solve-us.txt"
+			./stave converge --json --max 64 "$m" >"$name.converge.json" 2>&1 || echo "exit $?" >>"$name.converge.json"
 			for out in csv svg png; do
-				./stave export "$OLDPWD/$m" --out "$name.$out" >/dev/null 2>&1 || echo "exit $?" >"$name.$out.failed"
+				./stave export "$m" --out "$name.$out" >/dev/null 2>&1 || echo "exit $?" >"$name.$out.failed"
 			done
-			./stave export "$OLDPWD/$m" --sheet --out "$name.sheet.png" >/dev/null 2>&1 || echo "exit $?" >"$name.sheet.png.failed"
+			./stave export "$m" --sheet --out "$name.sheet.png" >/dev/null 2>&1 || echo "exit $?" >"$name.sheet.png.failed"
 		)
-		# The model's own path differs between the two runs.
-		sed -i "s|$PWD/||g" "$dir/$name".*.txt "$dir/$name".*.json 2>/dev/null || true
 	done
 }
 
 build "$base" "$work/base"
 build "$head" "$work/head"
+# Both versions read the models as BASE ships them (a newer format still
+# reads the older files), copied to one place so the paths they print agree.
+mkdir -p "$work/models"
+cp "$work/base-src"/testdata/*.json "$work/models/"
+models="$work/models"
 run "$work/base"
 run "$work/head"
 

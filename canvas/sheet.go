@@ -186,7 +186,7 @@ func (sh *sheet) modelTable(m *fem.Model, u units.System) {
 	}
 	for i, s := range m.Supports {
 		d := fmt.Sprintf("%s at %s", s.Kind, f(units.Position, s.X))
-		if s.Kind == fem.Spring {
+		if s.Stiffness != [3]float64{} {
 			d += fmt.Sprintf("; k %s, %s, %s", f(units.TranslationalStiffness, s.Stiffness[0]),
 				f(units.TranslationalStiffness, s.Stiffness[1]), f(units.RotationalStiffness, s.Stiffness[2]))
 		}

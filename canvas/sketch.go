@@ -192,9 +192,16 @@ func (b *builder) support(i int, sp fem.Support, y float32) {
 		wall := plate + dir*8
 		b.line(c, 1.5, Point{wall, y - 18}, Point{wall, y + 18})
 		b.hatch(wall, y-18, y+18, dir, c)
-	case fem.Spring:
-		b.springs(x, y, dir, sp.Stiffness, c)
 	}
+	// Springs on the motions the kind leaves free: all of a spring support's,
+	// or those a rigid kind adds (a roller's rotational spring, say).
+	var elastic [3]float64
+	for d := range elastic {
+		if sp.Elastic(fem.Dof(d)) {
+			elastic[d] = sp.Stiffness[d]
+		}
+	}
+	b.springs(x, y, dir, elastic, c)
 	b.handle(ref, 16, Point{x, y + 14})
 	b.occupy(rect{x - 22, y - 20, x + 22, y + supportHeight + 4})
 	b.settlement(sp, x, y, c)
@@ -564,11 +571,7 @@ func (b *builder) supportHolds(i int, d fem.Dof) bool {
 	if i < 0 || i >= len(b.in.Model.Supports) {
 		return true
 	}
-	sp := b.in.Model.Supports[i]
-	if sp.Kind == fem.Spring {
-		return sp.Stiffness[d] != 0
-	}
-	return sp.Kind.Restrains(d)
+	return b.in.Model.Supports[i].Holds(d)
 }
 
 // dimensions draws a chain of dimensions between the ends and supports and,

@@ -78,7 +78,7 @@ func build(m *Model, nodes []float64, els []elementData, form Formulation) (*ban
 		for mi, d := range form.Motions() {
 			dof := form.nodeDof(node, mi)
 			switch {
-			case sup.Kind == Spring:
+			case sup.Elastic(d):
 				a.Add(dof, dof, sup.Stiffness[d])
 			case sup.Kind.Restrains(d):
 				as.fixed = append(as.fixed, fixedDof{dof: dof, support: s, motion: d})

@@ -207,7 +207,7 @@ func (e *Exact) keyPoints(p *Member) []keyPoint {
 			switch {
 			case s.Kind.Restrains(d):
 				k.restraints = append(k.restraints, restraint{support: i, dof: d, settlement: loads.Settlement[i][d]})
-			case s.Kind == Spring && s.Stiffness[d] > 0:
+			case s.Elastic(d):
 				k.restraints = append(k.restraints, restraint{support: i, dof: d, compliance: 1 / s.Stiffness[d]})
 			}
 		}

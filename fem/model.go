@@ -53,8 +53,11 @@ type Segment struct {
 // SupportKind says which motions a support restrains.
 type SupportKind int
 
-// Support kinds. Spring supports restrain each motion elastically with the
-// stiffness given in Support.Stiffness (0 leaves that motion free).
+// Support kinds. A kind holds some motions rigidly; any motion it leaves
+// free is held elastically when Support.Stiffness gives it a stiffness, so
+// one support can mix the two (a roller with a rotational spring, a pinned
+// end on an axial spring). Spring holds nothing rigidly: every motion is
+// elastic or free.
 const (
 	Fixed     SupportKind = iota // axial, transverse and rotation restrained
 	Pinned                       // axial and transverse restrained
@@ -101,11 +104,20 @@ func (k SupportKind) Restrains(d Dof) bool {
 	return false
 }
 
+// Elastic reports whether s holds motion d by a spring: its kind leaves d
+// free and a stiffness is given for it.
+func (s Support) Elastic(d Dof) bool { return !s.Kind.Restrains(d) && s.Stiffness[d] > 0 }
+
+// Holds reports whether s holds motion d at all, rigidly or elastically.
+func (s Support) Holds(d Dof) bool { return s.Kind.Restrains(d) || s.Elastic(d) }
+
 // Support is a restraint at one point of the member.
 type Support struct {
 	X    float64 // position along the member, m
 	Kind SupportKind
-	// Stiffness of a Spring support per Dof: N/m, N/m, N·m/rad. Ignored for rigid kinds.
+	// Stiffness per Dof of the motions the kind leaves free: N/m, N/m,
+	// N·m/rad; 0 leaves the motion free. A motion the kind holds rigidly
+	// takes none (Validate refuses one).
 	Stiffness [3]float64
 	// Settlement is the prescribed displacement of each rigidly restrained Dof: m, m, rad.
 	// Entries for motions the kind leaves free are ignored.

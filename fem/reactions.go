@@ -37,7 +37,7 @@ func staticReactions(m *Model, x []float64, els []elementData, pointLoads, disp 
 		k := nearest(x, sup.X)
 		for d := Axial; d <= Rotation; d++ {
 			switch {
-			case sup.Kind == Spring:
+			case sup.Elastic(d):
 				f := -sup.Stiffness[d] * disp[k][d]
 				reactions[r].Force[d] = f
 				loads[k][d] += f

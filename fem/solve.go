@@ -274,18 +274,12 @@ func equilibrium(applied [3]float64, reactions []Reaction) Equilibrium {
 // bar's rigid motion is u = a; the beam's are w = a + b·x, which one point of
 // deflection restraint, or one rotation restraint, cannot both stop.
 func checkMechanism(m *Model) error {
-	restrains := func(s Support, d Dof) bool {
-		if s.Kind == Spring {
-			return s.Stiffness[d] > 0
-		}
-		return s.Kind.Restrains(d)
-	}
 	var axial, rotation bool
 	var deflection []float64
 	for _, s := range m.Supports {
-		axial = axial || restrains(s, Axial)
-		rotation = rotation || restrains(s, Rotation)
-		if restrains(s, Transverse) {
+		axial = axial || s.Holds(Axial)
+		rotation = rotation || s.Holds(Rotation)
+		if s.Holds(Transverse) {
 			deflection = append(deflection, s.X)
 		}
 	}

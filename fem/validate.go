@@ -264,26 +264,26 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 			v.add(Place{Item: it, Property: KindProperty}, fmt.Sprintf("support %d has an unknown kind (%d): choose fixed, pinned, roller, axial, guided or spring", i+1, int(s.Kind)))
 			continue
 		}
-		if s.Kind == Spring {
-			stiff := false
-			for d, k := range s.Stiffness {
-				at := Place{Item: it, Property: MotionStiffnessProperty, Dof: Dof(d)}
-				switch {
-				case !isFinite(k):
-					v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %v: enter a finite value in %s", i+1, Dof(d), k, springUnits[d]))
-				case k < 0:
-					v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %s %s: it must not be negative", i+1, Dof(d), fmtNumber(k), springUnits[d]))
-				case k > 0 && (k < minStiffness || k > maxStiffness):
-					v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %s %s, outside the range the solvers work in (%s to %s %s): enter a stiffness in that range, 0 to leave the motion free, or a rigid support kind to hold it",
-						i+1, Dof(d), fmtNumber(k), springUnits[d], fmtNumber(minStiffness), fmtNumber(maxStiffness), springUnits[d]))
-					stiff = true
-				case k > 0:
-					stiff = true
-				}
+		stiff := false
+		for d, k := range s.Stiffness {
+			at := Place{Item: it, Property: MotionStiffnessProperty, Dof: Dof(d)}
+			switch {
+			case k != 0 && s.Kind.Restrains(Dof(d)):
+				v.add(at, fmt.Sprintf("support %d is %s, which holds the %s motion rigidly, so a stiffness for that motion has no effect: remove it, or choose a kind that leaves the motion free (such as %s) to hold it by a spring", i+1, s.Kind, Dof(d), freeKindFor(Dof(d))))
+			case !isFinite(k):
+				v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %v: enter a finite value in %s", i+1, Dof(d), k, springUnits[d]))
+			case k < 0:
+				v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %s %s: it must not be negative", i+1, Dof(d), fmtNumber(k), springUnits[d]))
+			case k > 0 && (k < minStiffness || k > maxStiffness):
+				v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %s %s, outside the range the solvers work in (%s to %s %s): enter a stiffness in that range, 0 to leave the motion free, or a rigid support kind to hold it",
+					i+1, Dof(d), fmtNumber(k), springUnits[d], fmtNumber(minStiffness), fmtNumber(maxStiffness), springUnits[d]))
+				stiff = true
+			case k > 0:
+				stiff = true
 			}
-			if !stiff {
-				v.add(Place{Item: it, Property: StiffnessProperty}, fmt.Sprintf("support %d is a spring with no stiffness in any direction: give at least one positive stiffness or remove it", i+1))
-			}
+		}
+		if s.Kind == Spring && !stiff {
+			v.add(Place{Item: it, Property: StiffnessProperty}, fmt.Sprintf("support %d is a spring with no stiffness in any direction: give at least one positive stiffness or remove it", i+1))
 			continue
 		}
 		for d := Axial; d <= Rotation; d++ {
@@ -292,6 +292,17 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 			}
 		}
 	}
+}
+
+// freeKindFor names a support kind that leaves motion d free, for messages.
+func freeKindFor(d Dof) string {
+	switch d {
+	case Axial:
+		return "roller"
+	case Transverse:
+		return "guided"
+	}
+	return "pinned"
 }
 
 func (v *validator) pointLoads(loads []PointLoad, lengthKnown bool) {

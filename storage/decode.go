@@ -123,10 +123,11 @@ func within(inner, outer string) bool {
 // the next.
 type migration func(top *node) error
 
-// migrations maps each old version to the step that lifts it by one. Version
-// 1 is the first released format, so there is nothing to migrate yet; when
-// version 2 comes, migrations[1] turns a version 1 file into version 2.
-var migrations = map[int]migration{}
+// migrations maps each old version to the step that lifts it by one.
+// Version 2 only adds to version 1 (supports that mix rigid and elastic
+// motions, and this round's other additions), so a version 1 file is read
+// as it stands.
+var migrations = map[int]migration{1: func(*node) error { return nil }}
 
 // checkVersion makes sure top is a Stave project this version can read,
 // migrating older versions in place.
@@ -477,10 +478,10 @@ func (r *reader) support(f *fields) fem.Support {
 		r.add(kindPath, "%q is not a support kind; use %s", cut(name), supportKindList)
 	}
 	s.Kind = kind
+	// Any kind may hold the motions it leaves free by a spring (fem.Support);
+	// a stiffness on a motion the kind holds rigidly is refused by
+	// fem.Validate, at its path.
 	stiffness := f.object("stiffness", known && kind == fem.Spring, `"stiffness": {"axial", "transverse", "rotation"} in N/m, N/m and N·m/rad`)
-	if stiffness.n != nil && known && kind != fem.Spring {
-		r.add(stiffness.path, "only spring supports have a stiffness; remove it or change the kind to \"spring\"")
-	}
 	s.Stiffness = [3]float64{
 		stiffness.number("axial", "N/m", false),
 		stiffness.number("transverse", "N/m", false),

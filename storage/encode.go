@@ -15,7 +15,7 @@ import (
 const FormatName = "stave-member"
 
 // Version is the format version this Stave writes and the newest it reads.
-const Version = 1
+const Version = 2
 
 // The file layout. Struct fields, not maps, so that keys come out in a fixed
 // order and files diff well. Optional values are left out when zero.
@@ -276,12 +276,17 @@ func (c *converter) toFile(p *Project) fileProject {
 			c.problems = append(c.problems, Problem{Path: path + ".kind",
 				Message: fmt.Sprintf("support kind %d is unknown; choose one of %s", int(s.Kind), supportKindList)})
 		}
-		if s.Kind == fem.Spring {
-			// A spring always writes its stiffness, even all zero, so the key's presence marks the kind.
-			fs.Stiffness = c.motion(path+".stiffness", s.Stiffness)
-			if fs.Stiffness == nil {
-				fs.Stiffness = &fileMotion{}
+		// A spring always writes its stiffness, even all zero, so the key's
+		// presence marks the kind; another kind writes the springs it has.
+		var stiffness [3]float64
+		for d := range stiffness {
+			if !s.Kind.Restrains(fem.Dof(d)) {
+				stiffness[d] = s.Stiffness[d]
 			}
+		}
+		fs.Stiffness = c.motion(path+".stiffness", stiffness)
+		if fs.Stiffness == nil && s.Kind == fem.Spring {
+			fs.Stiffness = &fileMotion{}
 		}
 		// fem ignores the settlement of motions a support leaves free; the file leaves it out.
 		var settlement [3]float64

@@ -120,9 +120,9 @@ func TestDecodeRefusesHostileValues(t *testing.T) {
 		path, phrase   string
 	}{
 		{"element count beyond the limit", `"elements": 22,`, `"elements": 1e12,`, "mesh.elements", "1e12 is too large; a count in a file may be at most 1000000000"},
-		{"version far beyond this Stave's", `"version": 1`, `"version": 1e12`, "version", "newer Stave (format version 1e12)"},
-		{"version too large for a number", `"version": 1`, `"version": 1e999`, "version", "newer Stave"},
-		{"version below one", `"version": 1`, `"version": -4`, "version", "-4 is not a format version"},
+		{"version far beyond this Stave's", `"version": 2`, `"version": 1e12`, "version", "newer Stave (format version 1e12)"},
+		{"version too large for a number", `"version": 2`, `"version": 1e999`, "version", "newer Stave"},
+		{"version below one", `"version": 2`, `"version": -4`, "version", "-4 is not a format version"},
 		{"bytes not UTF-8 in a name", name, "\"name\": \"glued-laminated \xe9\"", "member.segments[0].material.name", "not UTF-8 text"},
 		{"half a surrogate pair", `"engineer": "(demo)"`, `"engineer": "\ud800 (demo)"`, "notes.engineer", "half of a \\u surrogate pair"},
 		{"low half of a pair first", `"engineer": "(demo)"`, `"engineer": "\udc00\ud800"`, "notes.engineer", "not UTF-8 text"},
@@ -309,7 +309,7 @@ func TestDecodeCutsLongTextsInMessages(t *testing.T) {
 	long := strings.Repeat("z", 100_000)
 	tests := []struct{ name, old, new, path string }{
 		{"format", `"format": "stave-member"`, `"format": "` + long + `"`, "format"},
-		{"version", `"version": 1`, `"version": 1` + strings.Repeat("0", 100_000), "version"},
+		{"version", `"version": 2`, `"version": 1` + strings.Repeat("0", 100_000), "version"},
 		{"unit", `"length": "m"`, `"length": "` + long + `"`, "units.length"},
 		{"support kind", `"kind": "pinned"`, `"kind": "` + long + `"`, "supports[0].kind"},
 		{"load kind", `"kind": "point"`, `"kind": "` + long + `"`, "loads[0].kind"},

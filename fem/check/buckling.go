@@ -80,7 +80,7 @@ func endConditionAt(m *fem.Model, x float64) EndCondition {
 		}
 		deflection = deflection || s.Kind.Restrains(fem.Transverse)
 		rotation = rotation || s.Kind.Restrains(fem.Rotation)
-		spring = spring || (s.Kind == fem.Spring && (s.Stiffness[fem.Transverse] > 0 || s.Stiffness[fem.Rotation] > 0))
+		spring = spring || s.Elastic(fem.Transverse) || s.Elastic(fem.Rotation)
 	}
 	switch {
 	case deflection && rotation:
@@ -113,7 +113,7 @@ func columns(m *fem.Model) []column {
 	tol := 1e-9 * L
 	inside := false
 	for _, s := range m.Supports {
-		holds := s.Kind.Restrains(fem.Transverse) || s.Kind.Restrains(fem.Rotation) || s.Kind == fem.Spring
+		holds := s.Holds(fem.Transverse) || s.Holds(fem.Rotation)
 		inside = inside || (holds && s.X > tol && s.X < L-tol)
 	}
 	if !inside {

@@ -145,7 +145,7 @@ func facts(m *fem.Model) (memberFacts, bool) {
 	seg := m.Segments[0]
 	f.length, f.elastic, f.area, f.second = m.Length(), seg.Material.Elastic, seg.Section.Area, seg.Section.SecondMoment
 	for _, s := range m.Supports {
-		if s.Kind == fem.Spring || s.Settlement != [3]float64{} {
+		if s.Stiffness != [3]float64{} || s.Settlement != [3]float64{} {
 			return f, false
 		}
 		if c := endConditionAt(m, s.X); c != Free {
