@@ -125,7 +125,11 @@ func solveExact(p *Member) (*Exact, error) {
 	for i, s := range m.Supports {
 		e.reactions[i] = Reaction{Support: i, X: s.X}
 	}
-	for _, p := range []odeProblem{exactBar, exactBeam} {
+	problems := []odeProblem{exactBar, exactBeam}
+	if !p.bending {
+		problems = problems[:1] // a bar alone: w stays zero
+	}
+	for _, p := range problems {
 		if err := e.solveProblem(p, points); err != nil {
 			return nil, err
 		}

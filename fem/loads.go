@@ -70,6 +70,28 @@ func GatherLoads(m *Model, keys []float64) Loads {
 	return l
 }
 
+// bendsMember reports whether anything in l loads the beam problem: a
+// transverse force, a moment, a transverse line load (self-weight across
+// the member included) or a settlement across the member or in rotation.
+func (l *Loads) bendsMember() bool {
+	for _, p := range l.Points {
+		if p.Transverse != 0 || p.Moment != 0 {
+			return true
+		}
+	}
+	for _, q := range l.Transverse {
+		if q[0] != 0 || q[1] != 0 {
+			return true
+		}
+	}
+	for _, s := range l.Settlement {
+		if s[Transverse] != 0 || s[Rotation] != 0 {
+			return true
+		}
+	}
+	return false
+}
+
 // Resultant sums the loads exactly: the force along x, the force along y
 // and the moment about x = 0 (counter-clockwise), N, N, N·m.
 func (l *Loads) Resultant() [3]float64 {

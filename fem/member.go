@@ -12,6 +12,8 @@ type Member struct {
 	loads Loads
 	// mechanism is why the supports cannot hold the member, or nil.
 	mechanism error
+	// bending says the beam problem is solved (Bending).
+	bending bool
 	// The exact solution, found once on first use.
 	exactOnce sync.Once
 	exact     *Exact
@@ -25,10 +27,31 @@ func Prepare(m *Model) (*Member, error) {
 	if err := m.Validate(); err != nil {
 		return nil, err
 	}
-	p := &Member{model: m.Clone(), mechanism: checkMechanism(m)}
+	p := &Member{model: m.Clone()}
 	p.keys = KeyPoints(&p.model)
 	p.loads = GatherLoads(&p.model, p.keys)
+	p.bending = !m.AxialOnly && (p.loads.bendsMember() || holdsAcross(m.Supports))
+	p.mechanism = checkMechanism(m, p.bending)
 	return p, nil
+}
+
+// Bending reports whether the member's bending is solved: it is not
+// declared axial-only, and something loads it transversely or a support
+// holds it across or in rotation. Otherwise it is solved as a bar alone:
+// the deflection, rotation, shear force and bending moment are zero and not
+// reported, and the supports need not hold it sideways (a tie on two axial
+// supports is no mechanism).
+func (p *Member) Bending() bool { return p.bending }
+
+// holdsAcross reports whether any support holds the member across it or in
+// rotation, rigidly or by a spring.
+func holdsAcross(sups []Support) bool {
+	for _, s := range sups {
+		if s.Holds(Transverse) || s.Holds(Rotation) {
+			return true
+		}
+	}
+	return false
 }
 
 // Model is the prepared model. It is shared, not copied: do not change it.

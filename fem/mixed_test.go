@@ -1,6 +1,7 @@
 package fem
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"testing"
@@ -83,5 +84,52 @@ func TestRollerOnAxialSpring(t *testing.T) {
 	// Held transversely only at the roller and fully at the fixed end, it is no mechanism.
 	if math.IsNaN(s.Displacement[0][Axial]) {
 		t.Error("no displacement at the spring")
+	}
+}
+
+// A tie held only axially at both ends carries an axial force P at x = a:
+// the ends share it as a bar fixed at both ends does, P·(L−a)/L at x = 0 and
+// P·a/L at x = L (statically indeterminate bar, Gere & Goodno, Mechanics of
+// Materials, from memory). Nothing loads it across, so it is solved as a bar
+// alone, not refused as free to move sideways; declared axial-only, a
+// transverse load on it is refused where it stands.
+func TestTieOnAxialSupports(t *testing.T) {
+	const L, a, P = 5.0, 2.0, 30e3
+	m := &Model{
+		Segments:   []Segment{testSegment(0, L)},
+		Supports:   []Support{{X: 0, Kind: AxialOnly}, {X: L, Kind: AxialOnly}},
+		PointLoads: []PointLoad{{X: a, Axial: P}},
+		Mesh:       MeshSettings{Elements: 10},
+	}
+	s := mustSolve(t, m)
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !s.AxialOnly {
+		t.Error("a member nothing bends is not reported as solved axially only")
+	}
+	for name, r := range map[string][]Reaction{"FE": s.Reactions, "exact": e.Reactions()} {
+		if got, want := r[0].Force[Axial], -P*(L-a)/L; relErr(got, want) > 1e-12 {
+			t.Errorf("%s reaction at x = 0: %.12g, want %.12g", name, got, want)
+		}
+		if got, want := r[1].Force[Axial], -P*a/L; relErr(got, want) > 1e-12 {
+			t.Errorf("%s reaction at x = L: %.12g, want %.12g", name, got, want)
+		}
+	}
+	if f := s.At(1, Right); f.Deflection != 0 || f.BendingMoment != 0 || f.AxialForce <= 0 {
+		t.Errorf("fields at x = 1 m: %+v, want tension and no bending", f)
+	}
+	m.AxialOnly = true
+	m.PointLoads = append(m.PointLoads, PointLoad{X: 1, Transverse: -1e3})
+	var invalid *ValidationError
+	if err := m.Validate(); !errors.As(err, &invalid) || invalid.Problems[0].Place != (Place{Item: Item{PointLoadItem, 1}, Property: TransverseForceProperty}) {
+		t.Errorf("a transverse load on an axial-only member: %v", err)
+	}
+	// Without the declaration the same load bends it, and two axial supports cannot hold that.
+	m.AxialOnly = false
+	var mech *MechanismError
+	if _, err := Solve(m); !errors.As(err, &mech) {
+		t.Errorf("a bent member on axial supports only: %v, want a mechanism", err)
 	}
 }

@@ -180,7 +180,12 @@ type Model struct {
 	Gravity [2]float64
 	// TemperatureChange is a uniform change of temperature along the member, K.
 	TemperatureChange float64
-	Mesh              MeshSettings
+	// AxialOnly declares the member a tie or strut: it carries axial force
+	// only and takes no transverse load, and its bending is not solved.
+	// A member that nothing loads transversely is solved the same way
+	// without being declared so (Member.Bending).
+	AxialOnly bool
+	Mesh      MeshSettings
 }
 
 // Length is the member length L, m (the end of the last segment).

@@ -24,6 +24,10 @@ type Solution struct {
 	// hierarchy.go), each of which adds a few rounding errors.
 	Condition float64
 	Warnings  []string
+	// AxialOnly says the member was solved as a bar alone (Member.Bending):
+	// its deflection, rotation, shear force and bending moment are zero and
+	// outputs leave them out.
+	AxialOnly bool
 
 	sections []sectionData // per segment of Model
 	barOrder ElementOrder
@@ -109,7 +113,8 @@ type Structure struct {
 	coarse    Mesh
 	stretches []elementData
 	bar, beam Formulation
-	problems  [2]*assembly // bar, beam
+	problems  [2]*assembly // bar, beam; no beam without bending
+	bending   bool         // see Member.Bending
 	// condition and warnings are the key-point systems' (see Solution).
 	condition float64
 	warnings  []string
@@ -147,7 +152,12 @@ func newStructure(p *Member, mesh Mesh) (*Structure, error) {
 	}
 	// The key-point system of the bar is always linear: a quadratic bar's
 	// bubbles are orthogonal to it and solved element by element.
-	for i, form := range []Formulation{barFormulation{LinearBar}, st.beam} {
+	forms := []Formulation{barFormulation{LinearBar}, st.beam}
+	if !p.bending {
+		forms = forms[:1] // a bar alone: the beam is neither loaded nor necessarily held
+	}
+	st.bending = p.bending
+	for i, form := range forms {
 		as, err := assemble(m, st.keyX, st.stretches, form)
 		if err != nil {
 			return nil, err
@@ -185,7 +195,14 @@ func (st *Structure) Solve(l *Loads) (*Solution, error) {
 		s.Reactions[i] = Reaction{Support: i, X: sup.X}
 	}
 	s.Displacement = make([][3]float64, len(mesh.X))
+	s.AxialOnly = !st.bending
+	if !st.bending && l.bendsMember() {
+		return nil, fmt.Errorf("fem: the loads bend a member solved as a bar alone: gather them for a model that is not axial-only")
+	}
 	for _, as := range st.problems {
+		if as == nil {
+			continue
+		}
 		u := make([]float64, as.n)
 		if err := as.solve(stretches, keyPointLoads, l.Settlement, u); err != nil {
 			return nil, err
@@ -272,8 +289,9 @@ func equilibrium(applied [3]float64, reactions []Reaction) Equilibrium {
 
 // checkMechanism looks for rigid-body motions the supports leave free. The
 // bar's rigid motion is u = a; the beam's are w = a + b·x, which one point of
-// deflection restraint, or one rotation restraint, cannot both stop.
-func checkMechanism(m *Model) error {
+// deflection restraint, or one rotation restraint, cannot both stop. Without
+// bending (an axial-only member) only the bar's counts.
+func checkMechanism(m *Model, bending bool) error {
 	var axial, rotation bool
 	var deflection []float64
 	for _, s := range m.Supports {
@@ -286,6 +304,8 @@ func checkMechanism(m *Model) error {
 	switch {
 	case !axial:
 		return &MechanismError{Motion: "axial", Message: "the member can slide along its axis: add an axial restraint (pinned, fixed, axial or spring support)"}
+	case !bending:
+		return nil
 	case len(deflection) == 0:
 		return &MechanismError{Motion: "transverse", Message: "the member can move sideways: add a support that restrains deflection"}
 	case len(deflection) == 1 && !rotation:

@@ -114,8 +114,49 @@ func (m *Model) Validate() error {
 	if !isFinite(m.TemperatureChange) {
 		v.add(Place{Item: modelItem, Property: TemperatureChangeProperty}, fmt.Sprintf("the temperature change is %v: enter a finite value in K", m.TemperatureChange))
 	}
+	if m.AxialOnly {
+		v.axialOnly(m)
+	}
 	v.mesh(m, lengthKnown)
 	return v.err()
+}
+
+// axialOnly refuses what would bend a member declared to carry axial force
+// only.
+func (v *validator) axialOnly(m *Model) {
+	const why = "the member is declared to carry axial force only (a tie or strut)"
+	for i, p := range m.PointLoads {
+		it := Item{PointLoadItem, i}
+		if p.Transverse != 0 {
+			v.add(Place{Item: it, Property: TransverseForceProperty}, fmt.Sprintf("point load %d pushes across the member, but %s: remove its transverse force, or let the member bend", i+1, why))
+		}
+		if p.Moment != 0 {
+			v.add(Place{Item: it, Property: MomentProperty}, fmt.Sprintf("point load %d has a moment, but %s: remove the moment, or let the member bend", i+1, why))
+		}
+	}
+	for i, d := range m.DistributedLoad {
+		if d.Direction == Transverse {
+			v.add(Place{Item: Item{DistributedLoadItem, i}, Property: DirectionProperty}, fmt.Sprintf("distributed load %d acts across the member, but %s: make it axial, or let the member bend", i+1, why))
+		}
+	}
+	if m.Gravity[1] != 0 {
+		for _, s := range m.Segments {
+			if s.Material.Density > 0 {
+				v.add(Place{Item: modelItem, Property: GravityProperty, Dof: Transverse}, fmt.Sprintf("self-weight acts across the member (gravity %s m/s² across it), but %s: turn the member along gravity, or let it bend", fmtNumber(m.Gravity[1]), why))
+				break
+			}
+		}
+	}
+	for i, s := range m.Supports {
+		for _, c := range []struct {
+			d     Dof
+			moves string
+		}{{Transverse, "settles across the member"}, {Rotation, "turns by a settlement"}} {
+			if s.Kind.Restrains(c.d) && s.Settlement[c.d] != 0 {
+				v.add(Place{Item: Item{SupportItem, i}, Property: SettlementProperty, Dof: c.d}, fmt.Sprintf("support %d %s, but %s: remove the settlement, or let the member bend", i+1, c.moves, why))
+			}
+		}
+	}
 }
 
 type validator struct {

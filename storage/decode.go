@@ -392,6 +392,7 @@ func (r *reader) project(top *fields) *Project {
 	notes.finish()
 
 	member := top.object("member", true, `"member": {"segments": [...]}`)
+	p.Model.AxialOnly = member.flag("axial_only", false)
 	items, paths := member.list("segments", true, `"segments": [...] with at least one segment`)
 	for i, item := range items {
 		p.Model.Segments = append(p.Model.Segments, r.segment(r.object(paths[i], item)))

@@ -41,7 +41,8 @@ type (
 		Text     string `json:"text,omitempty"`
 	}
 	fileMember struct {
-		Segments []fileSegment `json:"segments"`
+		AxialOnly bool          `json:"axial_only,omitempty"`
+		Segments  []fileSegment `json:"segments"`
 	}
 	fileSegment struct {
 		Start    number       `json:"start"`
@@ -240,7 +241,7 @@ func (c *converter) toFile(p *Project) fileProject {
 		Version:           Version,
 		Units:             siUnits,
 		Notes:             fileNotes(p.Notes),
-		Member:            fileMember{Segments: make([]fileSegment, len(m.Segments))},
+		Member:            fileMember{AxialOnly: m.AxialOnly, Segments: make([]fileSegment, len(m.Segments))},
 		Supports:          make([]fileSupport, len(m.Supports)),
 		TemperatureChange: c.num("temperature_change", m.TemperatureChange),
 		Mesh: fileMesh{

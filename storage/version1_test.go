@@ -33,3 +33,21 @@ func TestVersion1Opens(t *testing.T) {
 		t.Error("the version 1 demo saved does not give the version 2 file")
 	}
 }
+
+// The additions of version 2 survive saving and loading: a roller with a
+// rotational spring, an axial-only member.
+func TestVersion2Additions(t *testing.T) {
+	p := goldenProject()
+	p.Model.Supports[1].Stiffness = [3]float64{0, 0, 4.5e6} // the roller's rotational spring
+	p.Model.AxialOnly = true
+	p.Model.PointLoads, p.Model.DistributedLoad, p.LoadOrder = nil, nil, nil
+	p.Model.Gravity = [2]float64{}
+	p.Model.Supports[0].Settlement = [3]float64{}
+	back, err := Unmarshal(mustMarshal(t, p))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !back.Model.AxialOnly || back.Model.Supports[1].Stiffness != [3]float64{0, 0, 4.5e6} {
+		t.Errorf("read back axial-only %v, support %+v", back.Model.AxialOnly, back.Model.Supports[1])
+	}
+}
