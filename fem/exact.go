@@ -112,32 +112,86 @@ func SolveExact(m *Model) (*Exact, error) {
 	return p.Exact()
 }
 
-func solveExact(p *Member) (*Exact, error) {
-	m := &p.model
-	e := &Exact{keys: p.keys}
-	points := e.keyPoints(p)
-	loads := &p.loads
-	e.stretches = make([]exactStretch, len(e.keys)-1)
-	for j := range e.stretches {
-		e.stretches[j] = newStretch(m, loads, j)
-	}
-	e.reactions = make([]Reaction, len(m.Supports))
-	for i, s := range m.Supports {
-		e.reactions[i] = Reaction{Support: i, X: s.X}
-	}
-	problems := []odeProblem{exactBar, exactBeam}
+// ExactStructure is the exact solution's equations for a member with the
+// matrices of the bar and of the beam equilibrated and factorized once:
+// Solve answers any load set gathered on the member's key points (load
+// cases, unit loads) with one substitution per problem, and solutions of
+// one structure combine linearly (CombineExact).
+type ExactStructure struct {
+	model    *Model
+	keys     []float64
+	problems []exactProblem
+}
+
+// exactProblem is one problem's layout and factorized matrix.
+type exactProblem struct {
+	ode    odeProblem
+	layout exactLayout
+	factor exactFactor
+}
+
+func newExactStructure(p *Member) (*ExactStructure, error) {
+	es := &ExactStructure{model: &p.model, keys: p.keys}
+	template := es.blank(&p.loads)
+	points := template.keyPoints(&p.model, &p.loads)
+	odes := []odeProblem{exactBar, exactBeam}
 	if !p.bending {
-		problems = problems[:1] // a bar alone: w stays zero
+		odes = odes[:1] // a bar alone: w stays zero
 	}
-	for _, p := range problems {
-		if err := e.solveProblem(p, points); err != nil {
+	for _, ode := range odes {
+		pr := exactProblem{ode: ode, layout: template.layout(ode, points)}
+		var shape bandShape
+		template.equations(ode, points, pr.layout, &shape)
+		a := band.NewGeneral(pr.layout.unknowns, shape.lower, shape.upper)
+		if rows := template.equations(ode, points, pr.layout, &matrixEquations{a}); rows != pr.layout.unknowns {
+			return nil, fmt.Errorf("fem: exact solution assembled %d equations for %d unknowns", rows, pr.layout.unknowns)
+		}
+		if err := pr.factor.factorize(a); err != nil {
 			return nil, err
 		}
+		es.problems = append(es.problems, pr)
+	}
+	return es, nil
+}
+
+// KeyPoints are the points loads must be gathered on for Solve. They are
+// shared, not copied: do not change them.
+func (es *ExactStructure) KeyPoints() []float64 { return es.keys }
+
+// Solve integrates the member's equations in closed form under the loads l,
+// gathered (GatherLoads) on the structure's KeyPoints with one settlement
+// per support.
+func (es *ExactStructure) Solve(l *Loads) (*Exact, error) {
+	if len(l.Keys) != len(es.keys) || len(l.Settlement) != len(es.model.Supports) {
+		return nil, fmt.Errorf("fem: the loads were gathered for another member or other supports: gather them on ExactStructure.KeyPoints")
+	}
+	e := es.blank(l)
+	points := e.keyPoints(es.model, l)
+	for _, pr := range es.problems {
+		b := make([]float64, pr.layout.unknowns)
+		e.equations(pr.ode, points, pr.layout, &rhsEquations{b})
+		x, err := pr.factor.solve(b)
+		if err != nil {
+			return nil, err
+		}
+		e.store(pr.ode, pr.layout, x)
 	}
 	if !e.finite() {
 		return nil, errNotFinite
 	}
 	return e, nil
+}
+
+// blank is an Exact with the stretches of the loads l and no constants yet.
+func (es *ExactStructure) blank(l *Loads) *Exact {
+	e := &Exact{keys: es.keys, stretches: make([]exactStretch, len(es.keys)-1), reactions: make([]Reaction, len(es.model.Supports))}
+	for j := range e.stretches {
+		e.stretches[j] = newStretch(es.model, l, j)
+	}
+	for i, s := range es.model.Supports {
+		e.reactions[i] = Reaction{Support: i, X: s.X}
+	}
+	return e
 }
 
 // finite reports whether the reactions and the fields at the ends and middle
@@ -200,12 +254,11 @@ func newStretchSolution(order int, stiffness, h, l0, l1 float64) stretchSolution
 	return stretchSolution{stiffness: stiffness, order: order, coeff: c}
 }
 
-// keyPoints gathers what acts at each key point of member p: its point
-// loads and the restraints of its supports.
-func (e *Exact) keyPoints(p *Member) []keyPoint {
-	loads := &p.loads
+// keyPoints gathers what acts at each key point of m under the loads l: the
+// point loads and the restraints of the supports, with their settlements.
+func (e *Exact) keyPoints(m *Model, loads *Loads) []keyPoint {
 	points := make([]keyPoint, len(e.keys))
-	for i, s := range p.model.Supports {
+	for i, s := range m.Supports {
 		k := &points[e.keyIndex(s.X)]
 		for d := Axial; d <= Rotation; d++ {
 			switch {
@@ -232,25 +285,6 @@ func (e *Exact) keyIndex(x float64) int {
 		return i - 1
 	}
 	return i
-}
-
-// solveProblem assembles and solves the bar or the beam equations: per
-// stretch the homogeneous constants, per restraint its reaction (see
-// exact_system.go for the banded layout).
-func (e *Exact) solveProblem(p odeProblem, points []keyPoint) error {
-	l := e.layout(p, points)
-	var shape bandShape
-	e.equations(p, points, l, &shape)
-	sys := &bandedEquations{a: band.NewGeneral(l.unknowns, shape.lower, shape.upper), b: make([]float64, l.unknowns)}
-	if rows := e.equations(p, points, l, sys); rows != l.unknowns {
-		return fmt.Errorf("fem: exact solution assembled %d equations for %d unknowns", rows, l.unknowns)
-	}
-	x, err := sys.solve()
-	if err != nil {
-		return err
-	}
-	e.store(p, l, x)
-	return nil
 }
 
 // exactLayout numbers the unknowns of one problem along the member: at

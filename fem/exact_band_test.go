@@ -103,7 +103,7 @@ func exactKeyPoints(e *Exact, m *Model) []keyPoint {
 	if err != nil {
 		panic(err)
 	}
-	return e.keyPoints(p)
+	return e.keyPoints(&p.model, &p.loads)
 }
 
 // randomKeyPointModel is a continuous beam of a few spans on pinned and

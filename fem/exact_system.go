@@ -14,7 +14,10 @@ import (
 // with the unknowns ordered along the member (at each key point the
 // reactions there, then the next stretch's constants) and the equations key
 // point by key point, the matrix is banded and its LU factorization costs
-// time linear in the number of stretches (band.LU).
+// time linear in the number of stretches (band.LU). The matrix depends on
+// the member alone, the right-hand side on the loads: ExactStructure
+// factorizes it once, and Solve answers any load set on the member's key
+// points (load cases, unit loads) with one substitution each.
 
 // exactEquations receives the equations row by row: add puts v into the
 // matrix at (row, col), rhs adds v to the right-hand side of row.
@@ -34,52 +37,66 @@ func (s *bandShape) add(row, col int, _ float64) {
 
 func (s *bandShape) rhs(int, float64) {}
 
-// bandedEquations is the banded system a·x = b.
-type bandedEquations struct {
-	a *band.General
-	b []float64
-}
+// matrixEquations keeps the matrix of the equations, rhsEquations their
+// right-hand side.
+type (
+	matrixEquations struct{ a *band.General }
+	rhsEquations    struct{ b []float64 }
+)
 
-func (s *bandedEquations) add(row, col int, v float64) { s.a.Add(row, col, v) }
-func (s *bandedEquations) rhs(row int, v float64)      { s.b[row] += v }
+func (s *matrixEquations) add(row, col int, v float64) { s.a.Add(row, col, v) }
+func (s *matrixEquations) rhs(int, float64)            {}
+func (s *rhsEquations) add(int, int, float64)          {}
+func (s *rhsEquations) rhs(row int, v float64)         { s.b[row] += v }
 
-// equilibrationPasses is the number of Ruiz passes: each brings every row and
-// column maximum closer to 1 (Ruiz 2001, converges linearly with rate 1/2);
-// a few passes settle systems whose equations mix N, N·m and m.
+// equilibrationPasses is the number of Ruiz passes at most: each brings
+// every row and column maximum closer to 1 (Ruiz 2001, converges linearly
+// with rate 1/2); a few passes settle systems whose equations mix N, N·m
+// and m.
 const equilibrationPasses = 8
 
 // maxCondition bounds the condition number of the equilibrated system; above
 // it the integration constants would carry too few correct digits.
 const maxCondition = 1e13
 
-// solve equilibrates rows and columns to unit largest entry by alternating
-// square-root scaling (Ruiz), so that equations in N and in m, and unknowns
-// in m and in N, meet on equal terms, and solves by band LU with partial
-// pivoting.
-func (s *bandedEquations) solve() ([]float64, error) {
-	rowScale, colScale := band.Equilibrate(s.a, equilibrationPasses)
-	y := make([]float64, len(s.b))
-	for i := range y {
-		y[i] = s.b[i] * rowScale[i]
-	}
-	var lu band.LU
-	if err := lu.Factorize(s.a); err != nil {
+// exactFactor is one problem's equations equilibrated and factorized.
+type exactFactor struct {
+	lu                 band.LU
+	rowScale, colScale []float64
+}
+
+// factorize equilibrates a (in place) by alternating square-root scaling of
+// rows and columns (Ruiz), so that equations in N and in m, and unknowns in
+// m and in N, meet on equal terms, and factorizes it by band LU with
+// partial pivoting.
+func (f *exactFactor) factorize(a *band.General) error {
+	f.rowScale, f.colScale = band.Equilibrate(a, equilibrationPasses)
+	if err := f.lu.Factorize(a); err != nil {
 		var se *band.SingularError
 		if errors.As(err, &se) {
-			return nil, errExactSingular(math.Inf(1))
+			return errExactSingular(math.Inf(1))
 		}
+		return fmt.Errorf("the exact solution cannot be found: %v", err)
+	}
+	if c := f.lu.Cond(a); !(c < maxCondition) {
+		return errExactSingular(c)
+	}
+	return nil
+}
+
+// solve returns the unknowns for the right-hand side b, which it scales in
+// place.
+func (f *exactFactor) solve(b []float64) ([]float64, error) {
+	for i := range b {
+		b[i] *= f.rowScale[i]
+	}
+	if err := f.lu.SolveTo(b, b); err != nil {
 		return nil, fmt.Errorf("the exact solution cannot be found: %v", err)
 	}
-	if c := lu.Cond(s.a); !(c < maxCondition) {
-		return nil, errExactSingular(c)
+	for j := range b {
+		b[j] *= f.colScale[j]
 	}
-	if err := lu.SolveTo(y, y); err != nil {
-		return nil, fmt.Errorf("the exact solution cannot be found: %v", err)
-	}
-	for j := range y {
-		y[j] *= colScale[j]
-	}
-	return y, nil
+	return b, nil
 }
 
 // errExactSingular says the exact solution's equations cannot be trusted.

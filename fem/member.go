@@ -14,10 +14,12 @@ type Member struct {
 	mechanism error
 	// bending says the beam problem is solved (Bending).
 	bending bool
-	// The exact solution, found once on first use.
-	exactOnce sync.Once
-	exact     *Exact
-	exactErr  error
+	// The exact solution's structure and the exact solution under the
+	// member's loads, found once on first use.
+	exactOnce      sync.Once
+	exactStructure *ExactStructure
+	exact          *Exact
+	exactErr       error
 }
 
 // Prepare validates m and gathers what every solve of it needs. A model
@@ -82,12 +84,30 @@ func (p *Member) Solve(mesh Mesh) (*Solution, error) {
 // Exact integrates the governing equations of the member in closed form
 // (see SolveExact), once: later calls return the same solution.
 func (p *Member) Exact() (*Exact, error) {
+	p.solveExact()
+	return p.exact, p.exactErr
+}
+
+// ExactStructure is the member's exact solution's equations, factorized
+// (once) for any load set on its key points.
+func (p *Member) ExactStructure() (*ExactStructure, error) {
+	p.solveExact()
+	if p.exactStructure == nil {
+		return nil, p.exactErr
+	}
+	return p.exactStructure, nil
+}
+
+// solveExact finds the exact structure and the exact solution under the
+// member's own loads, the first time it is called.
+func (p *Member) solveExact() {
 	p.exactOnce.Do(func() {
 		if p.mechanism != nil {
 			p.exactErr = p.mechanism
 			return
 		}
-		p.exact, p.exactErr = solveExact(p)
+		if p.exactStructure, p.exactErr = newExactStructure(p); p.exactErr == nil {
+			p.exact, p.exactErr = p.exactStructure.Solve(&p.loads)
+		}
 	})
-	return p.exact, p.exactErr
 }
