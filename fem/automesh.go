@@ -66,10 +66,11 @@ func sizeLimit(coefficient float64, power float64, allowed float64) float64 {
 }
 
 // automaticCounts are the default mesh's element counts per stretch of
-// p.keys, and a note on how they were found.
+// p.keys, and a note on how they were found. With load cases, every case
+// must meet the rule on the mesh.
 func (p *Member) automaticCounts() ([]int, string) {
 	n := make([]int, len(p.keys)-1)
-	e, err := p.Exact()
+	exacts, err := p.ExactLoadSets()
 	if err != nil {
 		L := p.model.Length()
 		for j := range n {
@@ -77,22 +78,27 @@ func (p *Member) automaticCounts() ([]int, string) {
 		}
 		return n, "automatic: no exact solution to size it from, so about 100 elements spread by length"
 	}
-	scale := exactScales(e)
 	bar, beam := p.model.Formulations()
-	sections := sectionTable(&p.model, p.loads.TemperatureChange)
-	total := 0
-	for j := range n {
-		a, b := p.keys[j], p.keys[j+1]
-		d := elementData{start: a, length: b - a, sectionData: sections[p.model.SegmentAt(0.5*(a+b))],
-			axialLoad: p.loads.Axial[j], transverseLoad: p.loads.Transverse[j]}
-		// Half the accuracy: the bounds are estimates.
-		tol := MeshAccuracy / 2
-		h := min(bar.elementLength(&d, &scale, tol), beam.elementLength(&d, &scale, tol))
-		n[j] = 1
-		if h < d.length {
-			n[j] = int(min(math.Ceil(d.length/h), maxAutomaticElements))
+	for k, e := range exacts {
+		scale := exactScales(e)
+		l := &p.loadSets[k]
+		sections := sectionTable(&p.model, l.TemperatureChange)
+		for j := range n {
+			a, b := p.keys[j], p.keys[j+1]
+			d := elementData{start: a, length: b - a, sectionData: sections[p.model.SegmentAt(0.5*(a+b))],
+				axialLoad: l.Axial[j], transverseLoad: l.Transverse[j]}
+			// Half the accuracy: the bounds are estimates.
+			tol := MeshAccuracy / 2
+			h := min(bar.elementLength(&d, &scale, tol), beam.elementLength(&d, &scale, tol))
+			n[j] = max(n[j], 1)
+			if h < d.length {
+				n[j] = max(n[j], int(min(math.Ceil(d.length/h), maxAutomaticElements)))
+			}
 		}
-		total += n[j]
+	}
+	total := 0
+	for _, c := range n {
+		total += c
 	}
 	if total <= maxAutomaticElements {
 		return n, "automatic, for fields within 0.5 % of the exact extremes"

@@ -372,11 +372,17 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 				}
 			}
 			row++
-			for q := first; q < next; q++ {
+			// The settlements are this load set's (kp), not the layout's.
+			q := first
+			for _, r := range kp.restraints {
+				if r.dof != d {
+					continue
+				}
 				term(side, i, t, 1)
-				sys.add(row, l.heldCol[q], l.held[q].compliance)
-				sys.rhs(row, l.held[q].settlement)
+				sys.add(row, l.heldCol[q], r.compliance)
+				sys.rhs(row, r.settlement)
 				row++
+				q++
 			}
 		}
 	}

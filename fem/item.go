@@ -11,9 +11,11 @@ const (
 	PointLoadItem                       // Model.PointLoads[Index]
 	DistributedLoadItem                 // Model.DistributedLoad[Index]
 	MeshItem                            // Model.Mesh (Index −1)
+	CaseItem                            // Model.Cases[Index]
+	CombinationItem                     // Model.Combinations[Index]
 )
 
-var itemKindNames = [...]string{"model", "segment", "support", "point load", "distributed load", "mesh"}
+var itemKindNames = [...]string{"model", "segment", "support", "point load", "distributed load", "mesh", "load case", "combination"}
 
 // String names the kind as messages do.
 func (k ItemKind) String() string {
@@ -24,10 +26,12 @@ func (k ItemKind) String() string {
 }
 
 // Item names one thing in a model: its kind and its 0-based index in that
-// kind's list (−1 for the model and the mesh).
+// kind's list (−1 for the model and the mesh). A load may belong to a load
+// case: Case is 0 for the model's own loads and k for Model.Cases[k−1].
 type Item struct {
 	Kind  ItemKind
 	Index int
+	Case  int
 }
 
 // Feature is a point of the member where results may jump or kink, and the
@@ -41,24 +45,16 @@ type Feature struct {
 
 // Features lists every feature of m in model order (not sorted, not merged).
 func Features(m *Model) []Feature {
-	n := 2*len(m.Segments) + len(m.Supports) + len(m.PointLoads)
-	for _, d := range m.DistributedLoad {
-		n += len(d.Points)
-	}
-	out := make([]Feature, 0, n)
+	out := make([]Feature, 0, 2*len(m.Segments)+len(m.Supports)+len(m.PointLoads))
 	for i, s := range m.Segments {
-		out = append(out, Feature{s.Start, Item{SegmentItem, i}, 0}, Feature{s.End, Item{SegmentItem, i}, 1})
+		out = append(out, Feature{s.Start, Item{Kind: SegmentItem, Index: i}, 0}, Feature{s.End, Item{Kind: SegmentItem, Index: i}, 1})
 	}
 	for i, s := range m.Supports {
-		out = append(out, Feature{X: s.X, Item: Item{SupportItem, i}})
+		out = append(out, Feature{X: s.X, Item: Item{Kind: SupportItem, Index: i}})
 	}
-	for i, p := range m.PointLoads {
-		out = append(out, Feature{X: p.X, Item: Item{PointLoadItem, i}})
-	}
-	for i, d := range m.DistributedLoad {
-		for k, p := range d.Points {
-			out = append(out, Feature{p.X, Item{DistributedLoadItem, i}, k})
-		}
+	out = loadFeatures(out, m.PointLoads, m.DistributedLoad, 0)
+	for c := range m.Cases {
+		out = loadFeatures(out, m.Cases[c].PointLoads, m.Cases[c].DistributedLoad, c+1)
 	}
 	return out
 }
@@ -104,7 +100,13 @@ const (
 
 	SegmentsProperty          // Model.Segments as a whole
 	GravityProperty           // Model.Gravity[Dof]: Axial for x, Transverse for y
-	TemperatureChangeProperty // Model.TemperatureChange
+	TemperatureChangeProperty // Model.TemperatureChange, or LoadCase.TemperatureChange of a CaseItem
+
+	NameProperty            // LoadCase.Name or Combination.Name
+	FactorsProperty         // Combination.Factors as a whole
+	FactorCaseProperty      // Combination.Factors[Vertex].Case
+	FactorProperty          // Combination.Factors[Vertex].Factor
+	CombinationKindProperty // Combination.Kind
 )
 
 // Place says where in a model something lies: an item, one of its
@@ -115,5 +117,18 @@ type Place struct {
 	Item     Item
 	Property Property
 	Dof      Dof // for MotionStiffnessProperty, SettlementProperty and GravityProperty
-	Vertex   int // for PointXProperty and PointIntensityProperty: the 0-based index of the load point
+	Vertex   int // for PointXProperty and PointIntensityProperty: the 0-based index of the load point; for FactorCaseProperty and FactorProperty, of the factor
+}
+
+// loadFeatures appends the features of one set of loads, of case c (see Item).
+func loadFeatures(out []Feature, points []PointLoad, lines []DistributedLoad, c int) []Feature {
+	for i, p := range points {
+		out = append(out, Feature{X: p.X, Item: Item{Kind: PointLoadItem, Index: i, Case: c}})
+	}
+	for i, d := range lines {
+		for k, p := range d.Points {
+			out = append(out, Feature{p.X, Item{Kind: DistributedLoadItem, Index: i, Case: c}, k})
+		}
+	}
+	return out
 }

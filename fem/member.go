@@ -10,6 +10,9 @@ type Member struct {
 	model Model // a copy: later edits of the caller's model leave it alone
 	keys  []float64
 	loads Loads
+	// loadSets are the load sets (cases) gathered on keys; loads is the
+	// first of them.
+	loadSets []Loads
 	// mechanism is why the supports cannot hold the member, or nil.
 	mechanism error
 	// bending says the beam problem is solved (Bending).
@@ -31,8 +34,13 @@ func Prepare(m *Model) (*Member, error) {
 	}
 	p := &Member{model: m.Clone()}
 	p.keys = KeyPoints(&p.model)
-	p.loads = GatherLoads(&p.model, p.keys)
-	p.bending = !m.AxialOnly && (p.loads.bendsMember() || holdsAcross(m.Supports))
+	p.loadSets = gatherLoadSets(&p.model, p.keys)
+	p.loads = p.loadSets[0]
+	bends := false
+	for i := range p.loadSets {
+		bends = bends || p.loadSets[i].bendsMember()
+	}
+	p.bending = !m.AxialOnly && (bends || holdsAcross(m.Supports))
 	p.mechanism = checkMechanism(m, p.bending)
 	return p, nil
 }
@@ -59,8 +67,9 @@ func holdsAcross(sups []Support) bool {
 // Model is the prepared model. It is shared, not copied: do not change it.
 func (p *Member) Model() *Model { return &p.model }
 
-// Loads are the model's loads gathered on its key points. They are shared,
-// not copied: do not change them.
+// Loads are the model's loads gathered on its key points: its own loads, or
+// its first case's (LoadSets has them all). They are shared, not copied: do
+// not change them.
 func (p *Member) Loads() *Loads { return &p.loads }
 
 // Structure assembles and factorizes the key-point systems on mesh, which

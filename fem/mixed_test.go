@@ -123,7 +123,7 @@ func TestTieOnAxialSupports(t *testing.T) {
 	m.AxialOnly = true
 	m.PointLoads = append(m.PointLoads, PointLoad{X: 1, Transverse: -1e3})
 	var invalid *ValidationError
-	if err := m.Validate(); !errors.As(err, &invalid) || invalid.Problems[0].Place != (Place{Item: Item{PointLoadItem, 1}, Property: TransverseForceProperty}) {
+	if err := m.Validate(); !errors.As(err, &invalid) || invalid.Problems[0].Place != (Place{Item: Item{Kind: PointLoadItem, Index: 1}, Property: TransverseForceProperty}) {
 		t.Errorf("a transverse load on an axial-only member: %v", err)
 	}
 	// Without the declaration the same load bends it, and two axial supports cannot hold that.

@@ -185,7 +185,14 @@ type Model struct {
 	// A member that nothing loads transversely is solved the same way
 	// without being declared so (Member.Bending).
 	AxialOnly bool
-	Mesh      MeshSettings
+	// Cases are named load sets (cases.go). A model with cases holds every
+	// load in them and none in PointLoads, DistributedLoad or
+	// TemperatureChange; Gravity then gives the direction of the
+	// self-weight that the cases marked SelfWeight carry.
+	Cases []LoadCase
+	// Combinations combine the cases with the engineer's factors.
+	Combinations []Combination
+	Mesh         MeshSettings
 }
 
 // Length is the member length L, m (the end of the last segment).
@@ -213,13 +220,33 @@ func (m *Model) Clone() Model {
 	c := *m
 	c.Segments = slices.Clone(m.Segments)
 	c.Supports = slices.Clone(m.Supports)
-	c.PointLoads = slices.Clone(m.PointLoads)
-	if m.DistributedLoad != nil {
-		c.DistributedLoad = make([]DistributedLoad, len(m.DistributedLoad))
-		for i, d := range m.DistributedLoad {
-			d.Points = slices.Clone(d.Points)
-			c.DistributedLoad[i] = d
+	c.PointLoads, c.DistributedLoad = cloneLoads(m.PointLoads, m.DistributedLoad)
+	if m.Cases != nil {
+		c.Cases = make([]LoadCase, len(m.Cases))
+		for i, lc := range m.Cases {
+			lc.PointLoads, lc.DistributedLoad = cloneLoads(lc.PointLoads, lc.DistributedLoad)
+			c.Cases[i] = lc
+		}
+	}
+	if m.Combinations != nil {
+		c.Combinations = make([]Combination, len(m.Combinations))
+		for i, cb := range m.Combinations {
+			cb.Factors = slices.Clone(cb.Factors)
+			c.Combinations[i] = cb
 		}
 	}
 	return c
+}
+
+// cloneLoads copies point and distributed loads deeply; nil stays nil.
+func cloneLoads(points []PointLoad, lines []DistributedLoad) ([]PointLoad, []DistributedLoad) {
+	var out []DistributedLoad
+	if lines != nil {
+		out = make([]DistributedLoad, len(lines))
+		for i, d := range lines {
+			d.Points = slices.Clone(d.Points)
+			out[i] = d
+		}
+	}
+	return slices.Clone(points), out
 }

@@ -83,8 +83,8 @@ const (
 const mergeTolerance = 1e-12
 
 var (
-	modelItem = Item{ModelItem, -1}
-	meshItem  = Item{MeshItem, -1}
+	modelItem = Item{Kind: ModelItem, Index: -1}
+	meshItem  = Item{Kind: MeshItem, Index: -1}
 )
 
 // Validate checks the model and returns nil or a *ValidationError listing all problems.
@@ -114,6 +114,7 @@ func (m *Model) Validate() error {
 	if !isFinite(m.TemperatureChange) {
 		v.add(Place{Item: modelItem, Property: TemperatureChangeProperty}, fmt.Sprintf("the temperature change is %v: enter a finite value in K", m.TemperatureChange))
 	}
+	v.cases(m, lengthKnown)
 	if m.AxialOnly {
 		v.axialOnly(m)
 	}
@@ -124,25 +125,11 @@ func (m *Model) Validate() error {
 // axialOnly refuses what would bend a member declared to carry axial force
 // only.
 func (v *validator) axialOnly(m *Model) {
-	const why = "the member is declared to carry axial force only (a tie or strut)"
-	for i, p := range m.PointLoads {
-		it := Item{PointLoadItem, i}
-		if p.Transverse != 0 {
-			v.add(Place{Item: it, Property: TransverseForceProperty}, fmt.Sprintf("point load %d pushes across the member, but %s: remove its transverse force, or let the member bend", i+1, why))
-		}
-		if p.Moment != 0 {
-			v.add(Place{Item: it, Property: MomentProperty}, fmt.Sprintf("point load %d has a moment, but %s: remove the moment, or let the member bend", i+1, why))
-		}
-	}
-	for i, d := range m.DistributedLoad {
-		if d.Direction == Transverse {
-			v.add(Place{Item: Item{DistributedLoadItem, i}, Property: DirectionProperty}, fmt.Sprintf("distributed load %d acts across the member, but %s: make it axial, or let the member bend", i+1, why))
-		}
-	}
+	v.axialOnlyLoads(m.PointLoads, m.DistributedLoad)
 	if m.Gravity[1] != 0 {
 		for _, s := range m.Segments {
 			if s.Material.Density > 0 {
-				v.add(Place{Item: modelItem, Property: GravityProperty, Dof: Transverse}, fmt.Sprintf("self-weight acts across the member (gravity %s m/s² across it), but %s: turn the member along gravity, or let it bend", fmtNumber(m.Gravity[1]), why))
+				v.add(Place{Item: modelItem, Property: GravityProperty, Dof: Transverse}, fmt.Sprintf("self-weight acts across the member (gravity %s m/s² across it), but %s: turn the member along gravity, or let it bend", fmtNumber(m.Gravity[1]), axialOnlyWhy))
 				break
 			}
 		}
@@ -153,8 +140,30 @@ func (v *validator) axialOnly(m *Model) {
 			moves string
 		}{{Transverse, "settles across the member"}, {Rotation, "turns by a settlement"}} {
 			if s.Kind.Restrains(c.d) && s.Settlement[c.d] != 0 {
-				v.add(Place{Item: Item{SupportItem, i}, Property: SettlementProperty, Dof: c.d}, fmt.Sprintf("support %d %s, but %s: remove the settlement, or let the member bend", i+1, c.moves, why))
+				v.add(Place{Item: Item{Kind: SupportItem, Index: i}, Property: SettlementProperty, Dof: c.d}, fmt.Sprintf("support %d %s, but %s: remove the settlement, or let the member bend", i+1, c.moves, axialOnlyWhy))
 			}
+		}
+	}
+}
+
+const axialOnlyWhy = "the member is declared to carry axial force only (a tie or strut)"
+
+// axialOnlyLoads refuses point and distributed loads that would bend an
+// axial-only member.
+func (v *validator) axialOnlyLoads(points []PointLoad, lines []DistributedLoad) {
+	const why = axialOnlyWhy
+	for i, p := range points {
+		it := Item{Kind: PointLoadItem, Index: i, Case: v.loadCase}
+		if p.Transverse != 0 {
+			v.add(Place{Item: it, Property: TransverseForceProperty}, fmt.Sprintf("point load %d pushes across the member, but %s: remove its transverse force, or let the member bend", i+1, why))
+		}
+		if p.Moment != 0 {
+			v.add(Place{Item: it, Property: MomentProperty}, fmt.Sprintf("point load %d has a moment, but %s: remove the moment, or let the member bend", i+1, why))
+		}
+	}
+	for i, d := range lines {
+		if d.Direction == Transverse {
+			v.add(Place{Item: Item{Kind: DistributedLoadItem, Index: i, Case: v.loadCase}, Property: DirectionProperty}, fmt.Sprintf("distributed load %d acts across the member, but %s: make it axial, or let the member bend", i+1, why))
 		}
 	}
 }
@@ -162,10 +171,90 @@ func (v *validator) axialOnly(m *Model) {
 type validator struct {
 	problems []Problem
 	L, tol   float64
+	// loadCase is the case whose loads are being checked (Item.Case), and
+	// prefix opens their messages with the case's name.
+	loadCase int
+	prefix   string
 }
 
 func (v *validator) add(at Place, msg string) {
-	v.problems = append(v.problems, Problem{Place: at, Message: msg})
+	v.problems = append(v.problems, Problem{Place: at, Message: v.prefix + msg})
+}
+
+// cases checks the load cases and combinations of m: names, the loads of
+// each case (as the model's own are checked, each message opening with the
+// case), and the factors.
+func (v *validator) cases(m *Model, lengthKnown bool) {
+	if len(m.Cases) > 0 {
+		const move = "the model has load cases, so every load belongs to one: move this load into a case"
+		for i := range m.PointLoads {
+			v.add(Place{Item: Item{Kind: PointLoadItem, Index: i}}, fmt.Sprintf("point load %d is outside the load cases; %s", i+1, move))
+		}
+		for i := range m.DistributedLoad {
+			v.add(Place{Item: Item{Kind: DistributedLoadItem, Index: i}}, fmt.Sprintf("distributed load %d is outside the load cases; %s", i+1, move))
+		}
+		if m.TemperatureChange != 0 {
+			v.add(Place{Item: modelItem, Property: TemperatureChangeProperty}, "the temperature change is outside the load cases; the model has load cases, so give it to one of them")
+		}
+	} else if len(m.Combinations) > 0 {
+		v.add(Place{Item: Item{Kind: CombinationItem, Index: 0}}, "there are combinations but no load cases to combine: add load cases, or delete the combinations")
+	}
+	names := map[string]int{}
+	for c, lc := range m.Cases {
+		it := Item{Kind: CaseItem, Index: c}
+		switch prev, seen := names[strings.ToLower(lc.Name)]; {
+		case strings.TrimSpace(lc.Name) == "":
+			v.add(Place{Item: it, Property: NameProperty}, fmt.Sprintf("load case %d has no name: name it (permanent, imposed, snow...)", c+1))
+		case seen:
+			v.add(Place{Item: it, Property: NameProperty}, fmt.Sprintf("load cases %d and %d are both named %q: give each case its own name", prev+1, c+1, lc.Name))
+		default:
+			names[strings.ToLower(lc.Name)] = c
+		}
+		if len(lc.PointLoads) == 0 && len(lc.DistributedLoad) == 0 && !lc.SelfWeight && lc.TemperatureChange == 0 && !lc.Settlements {
+			v.add(Place{Item: it}, fmt.Sprintf("load case %q is empty: add loads to it, or delete it", lc.Name))
+		}
+		if !isFinite(lc.TemperatureChange) {
+			v.add(Place{Item: it, Property: TemperatureChangeProperty}, fmt.Sprintf("load case %q: the temperature change is %v: enter a finite value in K", lc.Name, lc.TemperatureChange))
+		}
+		v.loadCase, v.prefix = c+1, fmt.Sprintf("load case %q: ", lc.Name)
+		v.pointLoads(lc.PointLoads, lengthKnown)
+		v.distributedLoads(lc.DistributedLoad, lengthKnown)
+		if m.AxialOnly {
+			v.axialOnlyLoads(lc.PointLoads, lc.DistributedLoad)
+		}
+		v.loadCase, v.prefix = 0, ""
+	}
+	combos := map[string]int{}
+	for k, cb := range m.Combinations {
+		it := Item{Kind: CombinationItem, Index: k}
+		switch prev, seen := combos[strings.ToLower(cb.Name)]; {
+		case strings.TrimSpace(cb.Name) == "":
+			v.add(Place{Item: it, Property: NameProperty}, fmt.Sprintf("combination %d has no name: name it", k+1))
+		case seen:
+			v.add(Place{Item: it, Property: NameProperty}, fmt.Sprintf("combinations %d and %d are both named %q: give each its own name", prev+1, k+1, cb.Name))
+		default:
+			combos[strings.ToLower(cb.Name)] = k
+		}
+		if cb.Kind < Strength || cb.Kind > OtherCombination {
+			v.add(Place{Item: it, Property: CombinationKindProperty}, fmt.Sprintf("combination %q has an unknown kind (%d): choose strength, serviceability or other", cb.Name, int(cb.Kind)))
+		}
+		if len(cb.Factors) == 0 {
+			v.add(Place{Item: it, Property: FactorsProperty}, fmt.Sprintf("combination %q combines no load cases: give it at least one case and factor", cb.Name))
+		}
+		used := map[int]bool{}
+		for f, cf := range cb.Factors {
+			switch {
+			case cf.Case < 0 || cf.Case >= len(m.Cases):
+				v.add(Place{Item: it, Property: FactorCaseProperty, Vertex: f}, fmt.Sprintf("combination %q, factor %d names load case %d, but there are %d: choose one of the cases", cb.Name, f+1, cf.Case+1, len(m.Cases)))
+			case used[cf.Case]:
+				v.add(Place{Item: it, Property: FactorCaseProperty, Vertex: f}, fmt.Sprintf("combination %q takes load case %q twice: give each case one factor", cb.Name, m.Cases[cf.Case].Name))
+			}
+			used[cf.Case] = true
+			if !isFinite(cf.Factor) {
+				v.add(Place{Item: it, Property: FactorProperty, Vertex: f}, fmt.Sprintf("combination %q, factor %d is %v: enter a finite number", cb.Name, f+1, cf.Factor))
+			}
+		}
+	}
 }
 
 func (v *validator) err() error {
@@ -194,7 +283,7 @@ func (v *validator) property(at Place, name string, value float64, unit string, 
 
 func (v *validator) segments(segs []Segment) {
 	for i, s := range segs {
-		it := Item{SegmentItem, i}
+		it := Item{Kind: SegmentItem, Index: i}
 		badEnds := false
 		for _, e := range []struct {
 			property Property
@@ -292,7 +381,7 @@ var springUnits = [3]string{"N/m", "N/m", "N·m/rad"}
 
 func (v *validator) supports(sups []Support, lengthKnown bool) {
 	for i, s := range sups {
-		it := Item{SupportItem, i}
+		it := Item{Kind: SupportItem, Index: i}
 		if v.position(Place{Item: it, Property: PositionProperty}, "its position", s.X, lengthKnown) {
 			for j := 0; j < i; j++ {
 				if isFinite(sups[j].X) && math.Abs(sups[j].X-s.X) <= v.tol {
@@ -348,7 +437,7 @@ func freeKindFor(d Dof) string {
 
 func (v *validator) pointLoads(loads []PointLoad, lengthKnown bool) {
 	for i, p := range loads {
-		at := func(p Property) Place { return Place{Item: Item{PointLoadItem, i}, Property: p} }
+		at := func(p Property) Place { return Place{Item: Item{Kind: PointLoadItem, Index: i, Case: v.loadCase}, Property: p} }
 		v.position(at(PositionProperty), "its position", p.X, lengthKnown)
 		v.finite(at(AxialForceProperty), "the axial force", p.Axial, "N")
 		v.finite(at(TransverseForceProperty), "the transverse force", p.Transverse, "N")
@@ -358,7 +447,7 @@ func (v *validator) pointLoads(loads []PointLoad, lengthKnown bool) {
 
 func (v *validator) distributedLoads(loads []DistributedLoad, lengthKnown bool) {
 	for i, d := range loads {
-		it := Item{DistributedLoadItem, i}
+		it := Item{Kind: DistributedLoadItem, Index: i, Case: v.loadCase}
 		if d.Direction != Axial && d.Direction != Transverse {
 			v.add(Place{Item: it, Property: DirectionProperty}, fmt.Sprintf("distributed load %d acts in direction %d: choose axial or transverse", i+1, int(d.Direction)))
 		}
@@ -422,26 +511,26 @@ func (v *validator) memory(m *Model) {
 	// Upper bounds before the key points are merged and the mesh is built:
 	// every end, break, support, point load and load point a key point, and
 	// every stretch between them at least one element more than its share.
-	keys := float64(2 + 2*len(m.Segments) + len(m.Supports) + len(m.PointLoads))
-	for _, d := range m.DistributedLoad {
-		keys += float64(len(d.Points))
-	}
+	// Each load case is solved and kept on its own, so the stages count
+	// once per case.
+	keys := float64(len(Features(m)) + 2)
 	elements := float64(max(m.Mesh.Elements, 0)) + keys
 	if h := m.Mesh.MaxElementLength; isFinite(h) && h > 0 {
 		elements += math.Ceil(v.L / h) // +Inf when L/h overflows
 	}
-	elementBytes, keyBytes := elements*bytesPerElement, keys*bytesPerKeyPoint
+	sets := float64(m.LoadSetCount())
+	elementBytes, keyBytes := sets*elements*bytesPerElement, sets*keys*bytesPerKeyPoint
 	need := elementBytes + keyBytes
 	if need <= memoryLimit {
 		return
 	}
 	limit := fmtGigabytes(memoryLimit)
-	if least := keys * (bytesPerKeyPoint + bytesPerElement); least > memoryLimit { // too much even with one element per stretch
+	if least := sets * keys * (bytesPerKeyPoint + bytesPerElement); least > memoryLimit { // too much even with one element per stretch
 		v.add(Place{Item: modelItem}, fmt.Sprintf("the model would need at least %s of memory for its %.3g key points (ends and breaks of segments, supports, point loads and load points), more than the %s allowed: use fewer supports, point loads and load points, or split the member into several models (up to about %.3g key points fit)",
 			fmtGigabytes(least), keys, limit, math.Floor(memoryLimit/(bytesPerKeyPoint+bytesPerElement))))
 		return
 	}
-	fit := math.Floor((memoryLimit - keyBytes) / bytesPerElement)
+	fit := math.Floor((memoryLimit - keyBytes) / (sets * bytesPerElement))
 	if !isFinite(need) {
 		v.add(Place{Item: meshItem, Property: ElementsProperty}, fmt.Sprintf("the mesh would need more than %s of memory (over %s elements), far more than the %s allowed: ask for fewer elements or a longer maximum element length (up to about %.3g elements fit)",
 			fmtGigabytes(floorPowerOfTen(math.MaxFloat64)), fmtNumber(floorPowerOfTen(math.MaxFloat64/bytesPerElement)), limit, fit))

@@ -20,7 +20,9 @@ func validModel() *Model {
 }
 
 // place is the place of property p of item i of a kind.
-func place(kind ItemKind, i int, p Property) Place { return Place{Item: Item{kind, i}, Property: p} }
+func place(kind ItemKind, i int, p Property) Place {
+	return Place{Item: Item{Kind: kind, Index: i}, Property: p}
+}
 
 // validationCase edits validModel and expects a problem at place whose message holds text.
 type validationCase struct {
@@ -51,23 +53,23 @@ func TestValidate(t *testing.T) {
 		{"support NaN", func(m *Model) { m.Supports[0].X = nan }, place(SupportItem, 0, PositionProperty), "support 1: its position is NaN"},
 		{"two supports at one point", func(m *Model) { m.Supports[1].X = 0 }, place(SupportItem, 1, PositionProperty), "supports 1 and 2 are both at x = 0.0 m"},
 		{"unknown kind", func(m *Model) { m.Supports[0].Kind = 17 }, place(SupportItem, 0, KindProperty), "support 1 has an unknown kind (17)"},
-		{"negative spring", func(m *Model) { m.Supports[1] = Support{X: 3, Kind: Spring, Stiffness: [3]float64{0, -5, 0}} }, Place{Item: Item{SupportItem, 1}, Property: MotionStiffnessProperty, Dof: Transverse}, "transverse spring stiffness is -5.0 N/m"},
+		{"negative spring", func(m *Model) { m.Supports[1] = Support{X: 3, Kind: Spring, Stiffness: [3]float64{0, -5, 0}} }, Place{Item: Item{Kind: SupportItem, Index: 1}, Property: MotionStiffnessProperty, Dof: Transverse}, "transverse spring stiffness is -5.0 N/m"},
 		{"spring without stiffness", func(m *Model) { m.Supports[1] = Support{X: 3, Kind: Spring} }, place(SupportItem, 1, StiffnessProperty), "support 2 is a spring with no stiffness"},
-		{"NaN settlement", func(m *Model) { m.Supports[0].Settlement[Transverse] = nan }, Place{Item: Item{SupportItem, 0}, Property: SettlementProperty, Dof: Transverse}, "the transverse settlement is NaN"},
+		{"NaN settlement", func(m *Model) { m.Supports[0].Settlement[Transverse] = nan }, Place{Item: Item{Kind: SupportItem, Index: 0}, Property: SettlementProperty, Dof: Transverse}, "the transverse settlement is NaN"},
 		{"point load outside", func(m *Model) { m.PointLoads[0].X = -1 }, place(PointLoadItem, 0, PositionProperty), "point load 1 at x = -1.0 m lies outside the member"},
 		{"point load infinite", func(m *Model) { m.PointLoads[0].Moment = inf }, place(PointLoadItem, 0, MomentProperty), "the moment is +Inf"},
 		{"one load point", func(m *Model) { m.DistributedLoad[0].Points = m.DistributedLoad[0].Points[:1] }, place(DistributedLoadItem, 0, PointsProperty), "distributed load 1 has 1 point(s)"},
 		{"zero span", func(m *Model) { m.DistributedLoad[0].Points[1].X = 0 }, place(DistributedLoadItem, 0, PointsProperty), "starts and ends at x = 0.0 m"},
 		{"unsorted points", func(m *Model) {
 			m.DistributedLoad[0].Points = []LoadPoint{{0, 1}, {2, 1}, {1, 1}, {3, 1}}
-		}, Place{Item: Item{DistributedLoadItem, 0}, Property: PointXProperty, Vertex: 2}, "point 3 (x = 1.0 m) does not lie beyond point 2"},
+		}, Place{Item: Item{Kind: DistributedLoadItem, Index: 0}, Property: PointXProperty, Vertex: 2}, "point 3 (x = 1.0 m) does not lie beyond point 2"},
 		{"duplicate points", func(m *Model) {
 			m.DistributedLoad[0].Points = []LoadPoint{{0, 1}, {1, 1}, {1, 2}, {3, 1}}
-		}, Place{Item: Item{DistributedLoadItem, 0}, Property: PointXProperty, Vertex: 2}, "list the points in increasing x without repeats"},
-		{"load point outside", func(m *Model) { m.DistributedLoad[0].Points[1].X = 4 }, Place{Item: Item{DistributedLoadItem, 0}, Property: PointXProperty, Vertex: 1}, "point 2 at x = 4.0 m lies outside"},
-		{"load intensity NaN", func(m *Model) { m.DistributedLoad[0].Points[0].Intensity = nan }, Place{Item: Item{DistributedLoadItem, 0}, Property: PointIntensityProperty, Vertex: 0}, "intensity NaN"},
+		}, Place{Item: Item{Kind: DistributedLoadItem, Index: 0}, Property: PointXProperty, Vertex: 2}, "list the points in increasing x without repeats"},
+		{"load point outside", func(m *Model) { m.DistributedLoad[0].Points[1].X = 4 }, Place{Item: Item{Kind: DistributedLoadItem, Index: 0}, Property: PointXProperty, Vertex: 1}, "point 2 at x = 4.0 m lies outside"},
+		{"load intensity NaN", func(m *Model) { m.DistributedLoad[0].Points[0].Intensity = nan }, Place{Item: Item{Kind: DistributedLoadItem, Index: 0}, Property: PointIntensityProperty, Vertex: 0}, "intensity NaN"},
 		{"bad direction", func(m *Model) { m.DistributedLoad[0].Direction = Rotation }, place(DistributedLoadItem, 0, DirectionProperty), "choose axial or transverse"},
-		{"gravity NaN", func(m *Model) { m.Gravity[1] = nan }, Place{Item: Item{ModelItem, -1}, Property: GravityProperty, Dof: Transverse}, "the gravity component 2 is NaN"},
+		{"gravity NaN", func(m *Model) { m.Gravity[1] = nan }, Place{Item: Item{Kind: ModelItem, Index: -1}, Property: GravityProperty, Dof: Transverse}, "the gravity component 2 is NaN"},
 		{"temperature infinite", func(m *Model) { m.TemperatureChange = -inf }, place(ModelItem, -1, TemperatureChangeProperty), "temperature change is -Inf"},
 		{"negative element count", func(m *Model) { m.Mesh.Elements = -3 }, place(MeshItem, -1, ElementsProperty), "the mesh asks for -3 elements"},
 		{"negative element length", func(m *Model) { m.Mesh.MaxElementLength = -0.1 }, place(MeshItem, -1, MaxElementLengthProperty), "maximum element length is -0.1 m"},
@@ -93,16 +95,16 @@ func TestValidateHostileInput(t *testing.T) {
 		{"support a nanometre past the end", func(m *Model) { m.Supports[1].X = 3 + 1e-9 }, place(SupportItem, 1, PositionProperty),
 			"support 2 at x = 3.000000001 m lies outside the member (length 3.0 m)"},
 		{"load point a nanometre past the end", func(m *Model) { m.DistributedLoad[0].Points[1].X = 3 + 1e-9 },
-			Place{Item: Item{DistributedLoadItem, 0}, Property: PointXProperty, Vertex: 1}, "point 2 at x = 3.000000001 m lies outside the member (length 3.0 m)"},
+			Place{Item: Item{Kind: DistributedLoadItem, Index: 0}, Property: PointXProperty, Vertex: 1}, "point 2 at x = 3.000000001 m lies outside the member (length 3.0 m)"},
 		{"load points a nanometre out of order", func(m *Model) {
 			m.DistributedLoad[0].Points = []LoadPoint{{0, 1}, {2, 1}, {2 - 1e-9, 1}, {3, 1}}
-		}, Place{Item: Item{DistributedLoadItem, 0}, Property: PointXProperty, Vertex: 2}, "point 3 (x = 1.999999999 m) does not lie beyond point 2 (x = 2.0 m)"},
+		}, Place{Item: Item{Kind: DistributedLoadItem, Index: 0}, Property: PointXProperty, Vertex: 2}, "point 3 (x = 1.999999999 m) does not lie beyond point 2 (x = 2.0 m)"},
 		// The smallest float64 prints as the value it reads back as.
 		{"negative subnormal area", func(m *Model) { m.Segments[0].Section.Area = -math.SmallestNonzeroFloat64 }, place(SegmentItem, 0, AreaProperty),
 			"the area A is -5e-324 m²: it must be positive"},
 		{"negative subnormal spring", func(m *Model) {
 			m.Supports[1] = Support{X: 3, Kind: Spring, Stiffness: [3]float64{1e6, -math.SmallestNonzeroFloat64, 0}}
-		}, Place{Item: Item{SupportItem, 1}, Property: MotionStiffnessProperty, Dof: Transverse}, "the transverse spring stiffness is -5e-324 N/m"},
+		}, Place{Item: Item{Kind: SupportItem, Index: 1}, Property: MotionStiffnessProperty, Dof: Transverse}, "the transverse spring stiffness is -5e-324 N/m"},
 		// Stiffnesses that underflow or overflow are refused before a solver
 		// finds its matrix singular and blames springs or close supports.
 		// By hand: 2e11·0.005/1e300 = 1e-291; 4.94e-324·0.005/1 = 2.5e-326;
@@ -116,10 +118,10 @@ func TestValidateHostileInput(t *testing.T) {
 		{"spring of 5e-324 N/m", func(m *Model) {
 			m.Supports[1] = Support{X: 3, Kind: Spring, Stiffness: [3]float64{1e6, math.SmallestNonzeroFloat64, 0}}
 		},
-			Place{Item: Item{SupportItem, 1}, Property: MotionStiffnessProperty, Dof: Transverse},
+			Place{Item: Item{Kind: SupportItem, Index: 1}, Property: MotionStiffnessProperty, Dof: Transverse},
 			"support 2: the transverse spring stiffness is 5e-324 N/m, outside the range the solvers work in (1e-150 to 1e+150 N/m): enter a stiffness in that range, 0 to leave the motion free, or a rigid support kind to hold it"},
 		{"spring of 1e200 N·m/rad", func(m *Model) { m.Supports[1] = Support{X: 3, Kind: Spring, Stiffness: [3]float64{1e6, 1e6, 1e200}} },
-			Place{Item: Item{SupportItem, 1}, Property: MotionStiffnessProperty, Dof: Rotation},
+			Place{Item: Item{Kind: SupportItem, Index: 1}, Property: MotionStiffnessProperty, Dof: Rotation},
 			"support 2: the rotation spring stiffness is 1e+200 N·m/rad, outside the range the solvers work in (1e-150 to 1e+150 N·m/rad)"},
 		// Requests beyond the machine are refused with the estimate, the
 		// limit and what fits. validModel has 12 key points at most (2 ends,

@@ -1,0 +1,204 @@
+package fem
+
+import (
+	"math"
+	"math/rand/v2"
+	"testing"
+)
+
+// twoSpans is a continuous beam of two equal spans L on pinned and roller
+// supports with two cases: a uniform load w on both spans ("both") and on
+// the first only ("first").
+func twoSpans(L, w float64) *Model {
+	uniform := func(a, b float64) DistributedLoad {
+		return DistributedLoad{Direction: Transverse, Points: []LoadPoint{{a, w}, {b, w}}}
+	}
+	return &Model{
+		Segments: []Segment{testSegment(0, 2*L)},
+		Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}, {X: 2 * L, Kind: Roller}},
+		Cases: []LoadCase{
+			{Name: "both", DistributedLoad: []DistributedLoad{uniform(0, 2*L)}},
+			{Name: "first", DistributedLoad: []DistributedLoad{uniform(0, L)}},
+		},
+		Mesh: MeshSettings{Elements: 64},
+	}
+}
+
+// Two equal spans under a uniform load w (w < 0 is downward), case by case
+// on one factorization, against the continuous-beam tables (AISC Manual,
+// beam diagrams and formulas, two equal spans: uniform load on both spans,
+// case 29, and on one span, case 30; from memory): both spans loaded, end
+// reactions 3wL/8, middle 10wL/8, moment over the middle support −wL²/8,
+// largest span moment 9wL²/128 at 3L/8 from the ends; one span loaded,
+// reactions 7wL/16, 10wL/16 and −wL/16, moment over the middle −wL²/16,
+// largest span moment 49wL²/512 at 7L/16.
+func TestTwoSpanCases(t *testing.T) {
+	const L, w = 5.0, -12e3
+	m := twoSpans(L, w)
+	p, err := Prepare(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	mesh := p.Mesh()
+	sols, err := p.SolveLoadSets(mesh)
+	if err != nil {
+		t.Fatal(err)
+	}
+	exacts, err := p.ExactLoadSets()
+	if err != nil {
+		t.Fatal(err)
+	}
+	W := -w // the load's size, N/m
+	for _, c := range []struct {
+		set          int
+		reactions    [3]float64
+		middleMoment float64
+		spanMoment   float64
+		spanAt       float64
+	}{
+		{0, [3]float64{3 * W * L / 8, 10 * W * L / 8, 3 * W * L / 8}, -W * L * L / 8, 9 * W * L * L / 128, 3 * L / 8},
+		{1, [3]float64{7 * W * L / 16, 10 * W * L / 16, -W * L / 16}, -W * L * L / 16, 49 * W * L * L / 512, 7 * L / 16},
+	} {
+		name := m.LoadSetName(c.set)
+		for i, want := range c.reactions {
+			for src, r := range map[string][]Reaction{"FE": sols[c.set].Reactions, "exact": exacts[c.set].Reactions()} {
+				if got := r[i].Force[Transverse]; math.Abs(got-want) > 1e-9*W*L {
+					t.Errorf("%s, %s reaction %d: %.9g, want %.9g", name, src, i+1, got, want)
+				}
+			}
+		}
+		if got := exacts[c.set].At(L, Left).BendingMoment; math.Abs(got-c.middleMoment) > 1e-9*W*L*L {
+			t.Errorf("%s: moment over the middle support %.9g, want %.9g", name, got, c.middleMoment)
+		}
+		// The largest span moment, where V = 0.
+		if got := exacts[c.set].At(c.spanAt, Right); math.Abs(got.BendingMoment-c.spanMoment) > 1e-9*W*L*L || math.Abs(got.ShearForce) > 1e-9*W*L {
+			t.Errorf("%s: at x = %.4g m, M %.9g and V %.3g, want M %.9g and V 0", name, c.spanAt, got.BendingMoment, got.ShearForce, c.spanMoment)
+		}
+	}
+}
+
+// Superposition: a combination of the case solutions equals the solution
+// of the combined loads, for the finite element answer and the exact one;
+// the cases' spans add up to the case (random continuous beams, the
+// combined model solved on its own as the reference).
+func TestCombinationIsSuperposition(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(31, 32))
+	for trial := range 20 {
+		base := randomKeyPointModel(rnd)
+		m := base.Clone()
+		m.PointLoads, m.DistributedLoad, m.TemperatureChange = nil, nil, 0
+		half := len(base.PointLoads) / 2
+		m.Cases = []LoadCase{
+			{Name: "dead", PointLoads: base.PointLoads[:half], SelfWeight: true, Settlements: true},
+			{Name: "imposed", PointLoads: base.PointLoads[half:], DistributedLoad: base.DistributedLoad, TemperatureChange: base.TemperatureChange},
+		}
+		factors := []float64{1.35, 1.5}
+		combined := m.LoadSet(0)
+		scaleLoads(&combined, factors[0])
+		for i := range combined.Supports {
+			combined.Supports[i].Settlement[Transverse] *= factors[0]
+		}
+		imposed := m.LoadSet(1)
+		scaleLoads(&imposed, factors[1])
+		combined.PointLoads = append(combined.PointLoads, imposed.PointLoads...)
+		combined.DistributedLoad = append(combined.DistributedLoad, imposed.DistributedLoad...)
+		combined.TemperatureChange = factors[1] * imposed.TemperatureChange
+		combined.Gravity[1] *= factors[0]
+		combined.Mesh = MeshSettings{Elements: 40}
+		m.Mesh = combined.Mesh
+
+		p, err := Prepare(&m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		sols, err := p.SolveLoadSets(p.Mesh())
+		if err != nil {
+			t.Fatal(err)
+		}
+		exacts, err := p.ExactLoadSets()
+		if err != nil {
+			t.Fatal(err)
+		}
+		fe, err := CombineSolutions(sols, factors)
+		if err != nil {
+			t.Fatal(err)
+		}
+		ex, err := CombineExact(exacts, factors)
+		if err != nil {
+			t.Fatal(err)
+		}
+		refEx, err := SolveExact(&combined)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for i, r := range refEx.Reactions() {
+			for d, want := range r.Force {
+				scale := 1e-9 * (math.Abs(refEx.Reactions()[0].Force[Transverse]) + 1e3)
+				if got := fe.Reactions[i].Force[d]; math.Abs(got-want) > scale {
+					t.Errorf("trial %d: FE combination's reaction %d %s %.9g, combined model's %.9g", trial, i+1, Dof(d), got, want)
+				}
+				if got := ex.Reactions()[i].Force[d]; math.Abs(got-want) > scale {
+					t.Errorf("trial %d: exact combination's reaction %d %s %.9g, combined model's %.9g", trial, i+1, Dof(d), got, want)
+				}
+			}
+		}
+		for _, x := range []float64{0.1, 0.37, 0.5, 0.81} {
+			x *= m.Length()
+			g, want := ex.At(x, Right), refEx.At(x, Right)
+			f := fe.At(x, Right)
+			for _, q := range []Quantity{QDeflection, QBendingMoment, QAxialForce} {
+				tol := 1e-8 * (math.Abs(q.Of(&want)) + 1e-3)
+				if math.Abs(q.Of(&g)-q.Of(&want)) > tol {
+					t.Errorf("trial %d: exact combination's %s at %.3g m: %.9g, combined model's %.9g", trial, q, x, q.Of(&g), q.Of(&want))
+				}
+			}
+			if math.Abs(f.Deflection-want.Deflection) > 1e-3*math.Abs(want.Deflection)+1e-9 {
+				t.Errorf("trial %d: FE combination's deflection at %.3g m %.6g, far from the exact %.6g", trial, x, f.Deflection, want.Deflection)
+			}
+		}
+	}
+}
+
+// scaleLoads multiplies the point and distributed loads of m by f.
+func scaleLoads(m *Model, f float64) {
+	for i := range m.PointLoads {
+		p := &m.PointLoads[i]
+		p.Axial, p.Transverse, p.Moment = f*p.Axial, f*p.Transverse, f*p.Moment
+	}
+	for i := range m.DistributedLoad {
+		for k := range m.DistributedLoad[i].Points {
+			m.DistributedLoad[i].Points[k].Intensity *= f
+		}
+	}
+}
+
+// A case placed by span splits into its spans' shares, which add up to it:
+// reactions of the shares sum to the case's (statics of superposition).
+func TestSpanLoadsAddUp(t *testing.T) {
+	const L, w = 4.0, -9e3
+	m := twoSpans(L, w)
+	m.Supports = append(m.Supports, Support{X: 2*L + 1, Kind: Roller})
+	m.Segments = []Segment{testSegment(0, 3*L)} // a third span and an overhang
+	m.Cases[0].DistributedLoad[0].Points = []LoadPoint{{0, w}, {1.5 * L, 2 * w}, {3 * L, w}}
+	m.Cases[0].PointLoads = []PointLoad{{X: L, Transverse: -5e3}, {X: 3 * L, Transverse: -2e3}}
+	shares := m.SpanLoads(0)
+	if len(shares) != 4 {
+		t.Fatalf("%d spans, want 4 (three spans and an overhang)", len(shares))
+	}
+	whole := m.LoadSet(0)
+	wholeLoads := GatherLoads(&whole, KeyPoints(&whole))
+	total := wholeLoads.Resultant()
+	var sum [3]float64
+	for _, s := range shares {
+		l := GatherLoads(&s, KeyPoints(&s))
+		r := l.Resultant()
+		for i := range sum {
+			sum[i] += r[i]
+		}
+	}
+	for i := range sum {
+		if math.Abs(sum[i]-total[i]) > 1e-9*math.Abs(total[1])*3*L {
+			t.Errorf("resultant %d of the shares %.9g, of the case %.9g", i, sum[i], total[i])
+		}
+	}
+}
