@@ -437,7 +437,9 @@ func freeKindFor(d Dof) string {
 
 func (v *validator) pointLoads(loads []PointLoad, lengthKnown bool) {
 	for i, p := range loads {
-		at := func(p Property) Place { return Place{Item: Item{Kind: PointLoadItem, Index: i, Case: v.loadCase}, Property: p} }
+		at := func(p Property) Place {
+			return Place{Item: Item{Kind: PointLoadItem, Index: i, Case: v.loadCase}, Property: p}
+		}
 		v.position(at(PositionProperty), "its position", p.X, lengthKnown)
 		v.finite(at(AxialForceProperty), "the axial force", p.Axial, "N")
 		v.finite(at(TransverseForceProperty), "the transverse force", p.Transverse, "N")
