@@ -1,0 +1,46 @@
+package main
+
+import (
+	"fmt"
+	"os"
+	"strconv"
+	"strings"
+	"testing"
+)
+
+// FyneApp.toml names the version that `make dist` puts on the packages (the
+// Linux bundle's name, the Windows version information); `stave version` and the
+// calculation sheets must say the same.
+func TestVersionIsFyneAppVersion(t *testing.T) {
+	data, err := os.ReadFile("../../FyneApp.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	want, err := detailsValue(string(data), "Version")
+	if err != nil {
+		t.Fatal(err)
+	}
+	code, out, stderr := runStave(t, "version")
+	if code != 0 || out != "stave "+want+"\n" {
+		t.Errorf("stave version: exit %d, printed %q (stderr %q); FyneApp.toml says %s: change one to match the other",
+			code, out, stderr, want)
+	}
+}
+
+// detailsValue returns the string value of key in the [Details] table of a
+// FyneApp.toml.
+func detailsValue(toml, key string) (string, error) {
+	inDetails := false
+	for _, line := range strings.Split(toml, "\n") {
+		line = strings.TrimSpace(line)
+		if strings.HasPrefix(line, "[") {
+			inDetails = line == "[Details]"
+			continue
+		}
+		name, value, ok := strings.Cut(line, "=")
+		if inDetails && ok && strings.TrimSpace(name) == key {
+			return strconv.Unquote(strings.TrimSpace(value))
+		}
+	}
+	return "", fmt.Errorf("FyneApp.toml has no %s in [Details]", key)
+}
