@@ -36,6 +36,9 @@ func (b *builder) sketch(lay layoutBands) {
 	end := Point{b.sx(l), y}
 	b.circle(end, 4, white, b.colourFor(Ref{Kind: MemberEnd}, inkColour), 1.5)
 	b.handle(Ref{Kind: MemberEnd}, 6, end)
+	for _, h := range m.Hinges {
+		b.hinge(h, y)
+	}
 
 	b.distributedLoads(lay)
 	for i, p := range m.PointLoads {
@@ -680,4 +683,20 @@ func trimFloat(v float64) string {
 		return fmt.Sprintf("%.0f", v)
 	}
 	return fmt.Sprintf("%.3g", v)
+}
+
+// hinge draws a moment release: an open ring on the member axis that the
+// member passes through, and for a semi-rigid joint a small coil above it.
+func (b *builder) hinge(h fem.Hinge, y float32) {
+	x := b.sx(h.X)
+	b.circle(Point{x, y}, 5, white, inkColour, 1.6)
+	if h.Stiffness > 0 {
+		var pts []Point
+		for t := 0.0; t <= 3*math.Pi; t += 0.25 {
+			r := float32(1.5 + t)
+			pts = append(pts, Point{x + r*float32(math.Cos(t)), y - 12 - r*float32(math.Sin(t))*0.7})
+		}
+		b.line(inkColour, 1.1, pts...)
+	}
+	b.occupy(rect{x - 8, y - 24, x + 8, y + 7})
 }

@@ -210,6 +210,7 @@ func elementTable(m *Model, mesh Mesh, fine []float64, l *Loads) ([]elementData,
 		d := &els[i]
 		d.axialLoad, d.transverseLoad, d.breaks = l.loadsIn(e.Start, e.End)
 	}
+	markReleases(m, mesh.X, els)
 	for _, p := range l.Points {
 		p.X = fine[nearest(fine, p.X)]
 		node := nearest(mesh.X, p.X)
@@ -231,4 +232,13 @@ func elementTable(m *Model, mesh Mesh, fine []float64, l *Loads) ([]elementData,
 // component returns the part of the point load that acts on motion d.
 func (p PointLoad) component(d Dof) float64 {
 	return [3]float64{p.Axial, p.Transverse, p.Moment}[d]
+}
+
+// markReleases marks the elements between nodes that start at a hinge of m.
+func markReleases(m *Model, nodes []float64, els []elementData) {
+	for _, h := range m.Hinges {
+		if i := nearest(nodes, h.X); i > 0 && i < len(els) {
+			els[i].released, els[i].release = true, h.Stiffness
+		}
+	}
 }

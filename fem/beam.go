@@ -30,11 +30,73 @@ func (hermiteBeam) Varies(q Quantity) Variation {
 	return Variation{Degree: -1}
 }
 
-func (hermiteBeam) size(ne int) (int, int)               { return 2*ne + 2, 3 }
-func (hermiteBeam) nodeDof(node, motion int) int         { return 2*node + motion }
-func (hermiteBeam) element(e int) (int, int)             { return 2 * e, 4 }
-func (hermiteBeam) stiffness(d *elementData) localMatrix { return d.beamStiffness() }
-func (hermiteBeam) loads(d *elementData) localVector     { return d.beamLoads() }
+func (hermiteBeam) size(ne int) (int, int)       { return 2*ne + 2, 3 }
+func (hermiteBeam) nodeDof(node, motion int) int { return 2*node + motion }
+func (hermiteBeam) element(e int) (int, int)     { return 2 * e, 4 }
+
+// stiffness is the element's, with its own start rotation condensed out
+// when it starts at a hinge (releaseCondensation).
+func (hermiteBeam) stiffness(d *elementData) localMatrix {
+	k := d.beamStiffness()
+	if d.released {
+		k, _ = releaseCondensation(k, localVector{}, d.release)
+	}
+	return k
+}
+
+func (hermiteBeam) loads(d *elementData) localVector {
+	f := d.beamLoads()
+	if d.released {
+		_, f = releaseCondensation(d.beamStiffness(), f, d.release)
+	}
+	return f
+}
+
+// releaseCondensation condenses the start rotation θᵣ of an element that
+// starts at a hinge out of its stiffness k and loads f, over (w₁, θ₁, w₂,
+// θ₂): the element turns by θᵣ at its start, tied to the node's rotation θ₁
+// by a spring kᵣ (0 for a pure hinge). With a = k₁₁, the element's own
+// stiffness against θᵣ, ρ = kᵣ/(a + kᵣ) and σ = 1/(a + kᵣ), eliminating θᵣ
+// gives k'ᵢⱼ = kᵢⱼ − kᵢ₁kⱼ₁σ and f'ᵢ = fᵢ − kᵢ₁f₁σ for the other unknowns,
+// and ρ·k₁ⱼ, ρ·a and ρ·f₁ for θ₁: written so, a very stiff joint tends to
+// the plain element (ρ → 1, σ → 0) without subtracting huge numbers, and a
+// pure hinge gives the element pinned at its start (ρ = 0).
+func releaseCondensation(k localMatrix, f localVector, kr float64) (localMatrix, localVector) {
+	a := k[1][1]
+	rho, sigma := kr/(a+kr), 1/(a+kr)
+	var kc localMatrix
+	var fc localVector
+	for i := range 4 {
+		for j := range 4 {
+			switch {
+			case i == 1 && j == 1:
+				kc[i][j] = rho * a
+			case i == 1:
+				kc[i][j] = rho * k[1][j]
+			case j == 1:
+				kc[i][j] = rho * k[i][1]
+			default:
+				kc[i][j] = k[i][j] - k[i][1]*k[j][1]*sigma
+			}
+		}
+		if i == 1 {
+			fc[i] = rho * f[1]
+		} else {
+			fc[i] = f[i] - k[i][1]*f[1]*sigma
+		}
+	}
+	return kc, fc
+}
+
+// releasedRotation recovers the start rotation θᵣ of an element that
+// starts at a hinge from its end displacements u = (w₁, θ₁, w₂, θ₂), θ₁
+// being the node's rotation: the element's row for θᵣ in equilibrium.
+func (d *elementData) releasedRotation(u [4]float64) float64 {
+	k, f := d.beamStiffness(), d.beamLoads()
+	a, kr := k[1][1], d.release
+	r := f[1] - k[1][0]*u[0] - k[1][2]*u[2] - k[1][3]*u[3]
+	return r/(a+kr) + kr/(a+kr)*u[1]
+}
 
 // hermite returns the cubic Hermite shape functions for (w1, θ1, w2, θ2) at
 // ξ ∈ [0, 1] for an element of length h, with their first, second and third

@@ -204,6 +204,12 @@ func CombineSolutions(sols []*Solution, factors []float64) (*Solution, error) {
 				out.Reactions[i].Force[j] += f * r.Force[j]
 			}
 		}
+		for e, r := range s.releasedStart {
+			if out.releasedStart == nil {
+				out.releasedStart = map[int]float64{}
+			}
+			out.releasedStart[e] += f * r
+		}
 		for j := range 3 {
 			out.Equilibrium.Applied[j] += f * s.Equilibrium.Applied[j]
 			out.Equilibrium.Reactions[j] += f * s.Equilibrium.Reactions[j]

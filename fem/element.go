@@ -81,6 +81,15 @@ type elementData struct {
 	// points are the point loads strictly inside the element, which only
 	// the key-point mesh has: Solve keeps loads-only key points out of it.
 	points []PointLoad
+	// released says the element starts at a hinge: its own start rotation
+	// is tied to the node's by a rotational spring of stiffness release
+	// (N·m/rad, 0 for a pure hinge). Only stretches of the key-point mesh
+	// start at hinges.
+	released bool
+	release  float64
+	// startRotation is the released element's own start rotation, rad, once
+	// solved.
+	startRotation float64
 }
 
 // gauss3 is the 3-point Gauss–Legendre rule on [0, 1], exact for polynomials

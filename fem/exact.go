@@ -89,6 +89,10 @@ var (
 type keyPoint struct {
 	load       [3]float64 // point loads by Dof: N, N, N·m
 	restraints []restraint
+	// hinge says the moment is released here; a spring across it has
+	// compliance release (rad/(N·m)), 0 meaning none (a pure hinge).
+	hinge   bool
+	release float64
 }
 
 // restraint is one motion y a support holds, rigidly or by a spring. Its
@@ -269,6 +273,13 @@ func (e *Exact) keyPoints(m *Model, loads *Loads) []keyPoint {
 			}
 		}
 	}
+	for _, h := range m.Hinges {
+		k := &points[e.keyIndex(h.X)]
+		k.hinge = true
+		if h.Stiffness > 0 {
+			k.release = 1 / h.Stiffness
+		}
+	}
 	for _, p := range loads.Points {
 		k := &points[e.keyIndex(p.X)]
 		k.load[Axial] += p.Axial
@@ -352,7 +363,20 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 			side, t = k-1, 1.0
 		}
 		for i, d := range p.dofs {
-			if k > 0 && k < nStretch {
+			switch {
+			case k > 0 && k < nStretch && kp.hinge && d == Rotation:
+				// The rotation jumps at a hinge: the moment there is the
+				// spring's, M = kᵣ·(θ⁺ − θ⁻), written c·M − (θ⁺ − θ⁻) = 0
+				// with c = 1/kᵣ; a pure hinge gives M = 0.
+				if kp.release == 0 {
+					action(k-1, i, 1, 1)
+				} else {
+					action(k-1, i, 1, kp.release)
+					term(k, i, 0, -1)
+					term(k-1, i, 1, 1)
+				}
+				row++
+			case k > 0 && k < nStretch:
 				term(k, i, 0, 1)
 				term(k-1, i, 1, -1)
 				row++

@@ -71,7 +71,8 @@ func (s *Solution) InElement(e int, x float64) Fields {
 	xi := min(max((x-el.Start)/h, 0), 1)
 	x = el.Start + xi*h
 	f := Fields{X: x}
-	a, b, g := s.Displacement[e], s.Displacement[e+1], s.fields[e]
+	a, b := s.ends(e)
+	g := s.fields[e]
 
 	f.AxialDisplacement = (1-xi)*a[Axial] + xi*b[Axial] + 4*xi*(1-xi)*g.bubble
 	f.AxialForce = sec.axialRigidity * (g.slope + (4-8*xi)*g.bubble/h - sec.thermalStrain)
@@ -123,7 +124,7 @@ func (s *Solution) DeflectionExtremum(x float64, largest bool) (at, w float64) {
 // the shape functions of hermiteValues.
 func (s *Solution) stationaryPoints(e int) []float64 {
 	h := s.Mesh.Elements[e].End - s.Mesh.Elements[e].Start
-	a, b := s.Displacement[e], s.Displacement[e+1]
+	a, b := s.ends(e)
 	wa, ta, wb, tb := a[Transverse], h*a[Rotation], b[Transverse], h*b[Rotation]
 	c2 := 6*wa + 3*ta - 6*wb + 3*tb
 	c1 := -6*wa - 4*ta + 6*wb - 2*tb
@@ -153,4 +154,14 @@ func (s *Solution) stationaryPoints(e int) []float64 {
 		}
 	}
 	return out
+}
+
+// ends are element e's end displacements as the element sees them: at the
+// start of an element that starts at a hinge, with its own rotation.
+func (s *Solution) ends(e int) (start, end [3]float64) {
+	start, end = s.Displacement[e], s.Displacement[e+1]
+	if r, ok := s.releasedStart[e]; ok {
+		start[Rotation] = r
+	}
+	return start, end
 }

@@ -74,6 +74,9 @@ type stretchRefiner struct {
 	// Point loads inside the stretch, in order, and the node each sits on.
 	points     []PointLoad
 	pointNodes []int
+	// releasedNode is the stretch's first node when it starts at a hinge
+	// (its own start rotation differs from the node's), else −1.
+	releasedNode int
 	energy     float64 // twice the strain energy, J
 	// poison stays 0 while every result read off the elements
 	// (displacements, actions, stresses) is finite and turns NaN at the
@@ -178,12 +181,27 @@ func (r *stretchRefiner) setup(d *elementData) {
 	for _, p := range d.points {
 		r.pointNodes = append(r.pointNodes, nearest(r.x, p.X))
 	}
+	r.releasedNode = -1
+	if d.released {
+		r.releasedNode = nearest(r.x, d.start)
+	}
+}
+
+// displacement is node i's displacement as the stretch being refined sees
+// it: at the start of a stretch that starts at a hinge, with the stretch's
+// own start rotation.
+func (r *stretchRefiner) displacement(i int) [3]float64 {
+	d := r.disp[i]
+	if i == r.releasedNode {
+		d[Rotation] = r.stretch.startRotation
+	}
+	return d
 }
 
 // startTaylor is the key-point solution's Taylor data at the start of
 // stretch d, between fine nodes lo and hi.
 func (r *stretchRefiner) startTaylor(d *elementData, lo, hi int) taylor {
-	a, b := r.disp[lo], r.disp[hi]
+	a, b := r.displacement(lo), r.disp[hi]
 	_, _, d2, d3 := hermite(0, d.length)
 	beam := [4]float64{a[Transverse], a[Rotation], b[Transverse], b[Rotation]}
 	var c taylor
@@ -246,7 +264,7 @@ func (r *stretchRefiner) middle(lo, hi int, c taylor) (m int, left, right taylor
 	cw := (k22*fw - k12*ft) * idet
 	ct := (k11*ft - k12*fw) * idet
 
-	p := r.disp[lo]
+	p := r.displacement(lo)
 	r.disp[m] = [3]float64{
 		p[Axial] + c.slope*a + cu,
 		p[Transverse] + a*(p[Rotation]+a*(c.curvature/2+a*c.third/6)) + cw,

@@ -133,77 +133,88 @@ func TestHierarchyMatchesAssembled(t *testing.T) {
 			mesh func(*testing.T, *Model, int) Mesh
 		}{{"uniform", uniform}, {"graded", graded}} {
 			for _, n := range []int{1, 7, 40} {
-				t.Run(fmt.Sprintf("order %d, %s, %d elements", order, mk.name, n), func(t *testing.T) {
-					m := mixedModel(0)
-					m.Mesh.BarOrder = order
-					mesh := mk.mesh(t, m, n)
-					s, err := SolveOnMesh(m, mesh)
-					if err != nil {
-						t.Fatal(err)
-					}
-					ref := solveAssembled(t, m, mesh)
-					// Round-off of the assembled solve, or 1e-12 when smaller.
-					tol := max(1e-12, ref.cond*0x1p-52)
-					t.Logf("tolerance %.2g", tol)
-					stride := order.nodes() - 1
-					scale := [3]float64{largest(ref.bar), largest(everyOther(ref.beam, 0)), largest(everyOther(ref.beam, 1))}
-					for i, d := range s.Displacement {
-						want := [3]float64{ref.bar[stride*i], ref.beam[2*i], ref.beam[2*i+1]}
-						for k := range d {
-							if math.Abs(d[k]-want[k]) > tol*scale[k] {
-								t.Fatalf("node %d (x = %g), %s: hierarchical %.15g, assembled %.15g", i, mesh.X[i], Dof(k), d[k], want[k])
+				for _, hinged := range []bool{false, true} {
+					t.Run(fmt.Sprintf("order %d, %s, %d elements, hinges %v", order, mk.name, n, hinged), func(t *testing.T) {
+						m := mixedModel(0)
+						m.Mesh.BarOrder = order
+						if hinged { // a pure hinge and a semi-rigid joint
+							m.Hinges = []Hinge{{X: 1.8}, {X: 6.3, Stiffness: 2e6}}
+						}
+						mesh := mk.mesh(t, m, n)
+						s, err := SolveOnMesh(m, mesh)
+						if err != nil {
+							t.Fatal(err)
+						}
+						ref := solveAssembled(t, m, mesh)
+						// Round-off of the assembled solve, or 1e-12 when smaller.
+						tol := max(1e-12, ref.cond*0x1p-52)
+						t.Logf("tolerance %.2g", tol)
+						stride := order.nodes() - 1
+						scale := [3]float64{largest(ref.bar), largest(everyOther(ref.beam, 0)), largest(everyOther(ref.beam, 1))}
+						for i, d := range s.Displacement {
+							want := [3]float64{ref.bar[stride*i], ref.beam[2*i], ref.beam[2*i+1]}
+							for k := range d {
+								if math.Abs(d[k]-want[k]) > tol*scale[k] {
+									t.Fatalf("node %d (x = %g), %s: hierarchical %.15g, assembled %.15g", i, mesh.X[i], Dof(k), d[k], want[k])
+								}
 							}
 						}
-					}
-					var forces []float64
-					for _, r := range ref.reactions {
-						forces = append(forces, r.Force[:]...)
-					}
-					for i, r := range s.Reactions {
-						for k, v := range r.Force {
-							if want := ref.reactions[i].Force[k]; math.Abs(v-want) > tol*largest(forces) {
-								t.Errorf("reaction %d, %s: hierarchical %.15g, assembled %.15g", i+1, Dof(k), v, want)
+						var forces []float64
+						for _, r := range ref.reactions {
+							forces = append(forces, r.Force[:]...)
+						}
+						for i, r := range s.Reactions {
+							for k, v := range r.Force {
+								if want := ref.reactions[i].Force[k]; math.Abs(v-want) > tol*largest(forces) {
+									t.Errorf("reaction %d, %s: hierarchical %.15g, assembled %.15g", i+1, Dof(k), v, want)
+								}
 							}
 						}
-					}
-					var moment, shear, axial, mid []float64
-					var moments, shears, axials, mids []float64
-					for e, el := range mesh.Elements {
-						h := el.End - el.Start
-						d := elementData{length: h}
-						_, _, d2, d3 := hermite(0.5, h)
-						ei := s.sections[el.Segment].flexuralRigidity
-						ea := s.sections[el.Segment].axialRigidity
-						var curvature, third float64
-						for a := range 4 {
-							curvature += d2[a] * ref.beam[2*e+a]
-							third += d3[a] * ref.beam[2*e+a]
-						}
-						_, dn := barShape(order, 0.5, d.length)
-						strain := -s.sections[el.Segment].thermalStrain
-						for a := range order.nodes() {
-							strain += dn[a] * ref.bar[stride*e+a]
-						}
-						f := s.At(0.5*(el.Start+el.End), Right)
-						moment, moments = append(moment, f.BendingMoment), append(moments, ei*curvature)
-						shear, shears = append(shear, f.ShearForce), append(shears, ei*third)
-						axial, axials = append(axial, f.AxialForce), append(axials, ea*strain)
-						if order == QuadraticBar {
-							mid, mids = append(mid, f.AxialDisplacement), append(mids, ref.bar[stride*e+1])
-						}
-					}
-					for _, c := range []struct {
-						name      string
-						got, want []float64
-					}{{"bending moment", moment, moments}, {"shear force", shear, shears}, {"axial force", axial, axials}, {"middle node", mid, mids}} {
-						for e := range c.got {
-							// Fields lose up to n² more to cancellation in the assembled reference.
-							if math.Abs(c.got[e]-c.want[e]) > 1e3*tol*largest(c.want) {
-								t.Errorf("%s in element %d: hierarchical %.15g, assembled %.15g", c.name, e+1, c.got[e], c.want[e])
+						var moment, shear, axial, mid []float64
+						var moments, shears, axials, mids []float64
+						loads := GatherLoads(m, KeyPoints(m))
+						els, _ := elementTable(m, mesh, mesh.X, &loads)
+						for e, el := range mesh.Elements {
+							h := el.End - el.Start
+							d := elementData{length: h}
+							_, _, d2, d3 := hermite(0.5, h)
+							ei := s.sections[el.Segment].flexuralRigidity
+							ea := s.sections[el.Segment].axialRigidity
+							u := [4]float64(ref.beam[2*e : 2*e+4])
+							if els[e].released { // the element's own start rotation at a hinge
+								u[1] = els[e].releasedRotation(u)
+							}
+							var curvature, third float64
+							for a := range 4 {
+								curvature += d2[a] * u[a]
+								third += d3[a] * u[a]
+							}
+							_, dn := barShape(order, 0.5, d.length)
+							strain := -s.sections[el.Segment].thermalStrain
+							for a := range order.nodes() {
+								strain += dn[a] * ref.bar[stride*e+a]
+							}
+							f := s.At(0.5*(el.Start+el.End), Right)
+							moment, moments = append(moment, f.BendingMoment), append(moments, ei*curvature)
+							shear, shears = append(shear, f.ShearForce), append(shears, ei*third)
+							axial, axials = append(axial, f.AxialForce), append(axials, ea*strain)
+							if order == QuadraticBar {
+								mid, mids = append(mid, f.AxialDisplacement), append(mids, ref.bar[stride*e+1])
 							}
 						}
-					}
-				})
+						for _, c := range []struct {
+							name      string
+							got, want []float64
+						}{{"bending moment", moment, moments}, {"shear force", shear, shears}, {"axial force", axial, axials}, {"middle node", mid, mids}} {
+							for e := range c.got {
+								// Fields lose up to n² more to cancellation in the assembled reference.
+								if math.Abs(c.got[e]-c.want[e]) > 1e3*tol*largest(c.want) {
+									t.Errorf("%s in element %d: hierarchical %.15g, assembled %.15g", c.name, e+1, c.got[e], c.want[e])
+								}
+							}
+						}
+					})
+				}
 			}
 		}
 	}

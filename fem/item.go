@@ -13,9 +13,10 @@ const (
 	MeshItem                            // Model.Mesh (Index −1)
 	CaseItem                            // Model.Cases[Index]
 	CombinationItem                     // Model.Combinations[Index]
+	HingeItem                           // Model.Hinges[Index]
 )
 
-var itemKindNames = [...]string{"model", "segment", "support", "point load", "distributed load", "mesh", "load case", "combination"}
+var itemKindNames = [...]string{"model", "segment", "support", "point load", "distributed load", "mesh", "load case", "combination", "hinge"}
 
 // String names the kind as messages do.
 func (k ItemKind) String() string {
@@ -51,6 +52,9 @@ func Features(m *Model) []Feature {
 	}
 	for i, s := range m.Supports {
 		out = append(out, Feature{X: s.X, Item: Item{Kind: SupportItem, Index: i}})
+	}
+	for i, h := range m.Hinges {
+		out = append(out, Feature{X: h.X, Item: Item{Kind: HingeItem, Index: i}})
 	}
 	out = loadFeatures(out, m.PointLoads, m.DistributedLoad, 0)
 	for c := range m.Cases {

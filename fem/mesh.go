@@ -21,14 +21,17 @@ func KeyPoints(m *Model) []float64 {
 }
 
 // systemKeyPoints are the key points the factorized key-point system holds:
-// those where the member itself changes, its ends, the supports and the
-// breaks between segments of different stiffness. Loads stay out of it
+// those where the member itself changes, its ends, the supports, the hinges
+// and the breaks between segments of different stiffness. Loads stay out of it
 // (pieces.go): a load close to a support would otherwise make a short,
 // stiff stretch there.
 func systemKeyPoints(m *Model) []float64 {
 	pts := []float64{0, m.Length()}
 	for _, s := range m.Supports {
 		pts = append(pts, s.X)
+	}
+	for _, h := range m.Hinges {
+		pts = append(pts, h.X)
 	}
 	for i := 1; i < len(m.Segments); i++ {
 		if !sameStiffness(m.Segments[i-1], m.Segments[i]) {

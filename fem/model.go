@@ -124,6 +124,15 @@ type Support struct {
 	Settlement [3]float64
 }
 
+// Hinge is an internal moment release at x: the member turns freely there,
+// or held by a rotational spring across the joint (a semi-rigid joint). The
+// deflection stays continuous; the bending moment at the hinge is
+// Stiffness times the jump in rotation, zero for a pure hinge.
+type Hinge struct {
+	X         float64 // m, strictly inside the member
+	Stiffness float64 // N·m/rad across the joint; 0 for a pure hinge
+}
+
 // PointLoad is a concentrated force and/or moment at one point.
 type PointLoad struct {
 	X          float64 // m
@@ -170,8 +179,10 @@ const StandardGravity = 9.80665 // m/s²
 
 // Model is one straight member along x, from 0 to L, in SI units.
 type Model struct {
-	Segments        []Segment
-	Supports        []Support
+	Segments []Segment
+	Supports []Support
+	// Hinges release the bending moment at points inside the member.
+	Hinges          []Hinge
 	PointLoads      []PointLoad
 	DistributedLoad []DistributedLoad
 	// Gravity is the acceleration of self-weight in member axes (x along the
@@ -220,6 +231,7 @@ func (m *Model) Clone() Model {
 	c := *m
 	c.Segments = slices.Clone(m.Segments)
 	c.Supports = slices.Clone(m.Supports)
+	c.Hinges = slices.Clone(m.Hinges)
 	c.PointLoads, c.DistributedLoad = cloneLoads(m.PointLoads, m.DistributedLoad)
 	if m.Cases != nil {
 		c.Cases = make([]LoadCase, len(m.Cases))

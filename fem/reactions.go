@@ -112,7 +112,11 @@ func spanActions(d Dof, els []elementData, disp [][3]float64, loads []keyLoads, 
 		acts[best].axial[0] = -(k[0][0]*u[0] + k[0][1]*u[1] - f[0])
 	} else {
 		k, f := e.beamStiffness(), e.beamLoads()
-		u := [4]float64{disp[best][Transverse], disp[best][Rotation], disp[best+1][Transverse], disp[best+1][Rotation]}
+		start := disp[best][Rotation]
+		if e.released {
+			start = e.startRotation
+		}
+		u := [4]float64{disp[best][Transverse], start, disp[best+1][Transverse], disp[best+1][Rotation]}
 		row := 0 // V(start) = F_w(start)
 		scale := 1.0
 		if d == Rotation {

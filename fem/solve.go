@@ -32,6 +32,9 @@ type Solution struct {
 	sections []sectionData // per segment of Model
 	barOrder ElementOrder
 	fields   []elementField // per element of Mesh
+	// releasedStart holds the own start rotation of each element that
+	// starts at a hinge, by element (rad); nil without hinges.
+	releasedStart map[int]float64
 }
 
 // sectionData is what the fields need from a segment.
@@ -63,14 +66,6 @@ func conditionWarning(problem string, cond float64) string {
 	}
 	return ""
 }
-
-// MechanismError says the supports leave a rigid-body motion free.
-type MechanismError struct {
-	Motion  string // "axial", "transverse" or "rotation"
-	Message string
-}
-
-func (e *MechanismError) Error() string { return e.Message }
 
 // Solve validates, meshes, assembles and solves the model.
 func Solve(m *Model) (*Solution, error) {
@@ -150,6 +145,7 @@ func newStructure(p *Member, mesh Mesh) (*Structure, error) {
 	for j, e := range st.coarse.Elements {
 		st.stretches[j] = elementData{start: e.Start, length: e.End - e.Start, sectionData: sections[e.Segment]}
 	}
+	markReleases(m, st.keyX, st.stretches)
 	// The key-point system of the bar is always linear: a quadratic bar's
 	// bubbles are orthogonal to it and solved element by element.
 	forms := []Formulation{barFormulation{LinearBar}, st.beam}
@@ -216,6 +212,17 @@ func (st *Structure) Solve(l *Loads) (*Solution, error) {
 	keyDisp := make([][3]float64, len(keys))
 	for j, i := range keys {
 		keyDisp[j] = s.Displacement[i]
+	}
+	// A stretch that starts at a hinge turns there by its own rotation.
+	for j := range stretches {
+		if d := &stretches[j]; d.released {
+			a, b := keyDisp[j], keyDisp[j+1]
+			d.startRotation = d.releasedRotation([4]float64{a[Transverse], a[Rotation], b[Transverse], b[Rotation]})
+			if s.releasedStart == nil {
+				s.releasedStart = map[int]float64{}
+			}
+			s.releasedStart[keys[j]] = d.startRotation
+		}
 	}
 	staticReactions(m, st.keyX, stretches, keyPointLoads, keyDisp, s.Reactions)
 	s.fields = make([]elementField, len(mesh.Elements))
@@ -287,29 +294,3 @@ func equilibrium(applied [3]float64, reactions []Reaction) Equilibrium {
 	return q
 }
 
-// checkMechanism looks for rigid-body motions the supports leave free. The
-// bar's rigid motion is u = a; the beam's are w = a + b·x, which one point of
-// deflection restraint, or one rotation restraint, cannot both stop. Without
-// bending (an axial-only member) only the bar's counts.
-func checkMechanism(m *Model, bending bool) error {
-	var axial, rotation bool
-	var deflection []float64
-	for _, s := range m.Supports {
-		axial = axial || s.Holds(Axial)
-		rotation = rotation || s.Holds(Rotation)
-		if s.Holds(Transverse) {
-			deflection = append(deflection, s.X)
-		}
-	}
-	switch {
-	case !axial:
-		return &MechanismError{Motion: "axial", Message: "the member can slide along its axis: add an axial restraint (pinned, fixed, axial or spring support)"}
-	case !bending:
-		return nil
-	case len(deflection) == 0:
-		return &MechanismError{Motion: "transverse", Message: "the member can move sideways: add a support that restrains deflection"}
-	case len(deflection) == 1 && !rotation:
-		return &MechanismError{Motion: "rotation", Message: fmt.Sprintf("the member can rotate about the support at x = %s: add a second support or fix one end", fmtMetres(deflection[0]))}
-	}
-	return nil
-}

@@ -104,6 +104,7 @@ func (m *Model) Validate() error {
 	v.segments(m.Segments)
 	lengthKnown := isFinite(L) && L > 0
 	v.supports(m.Supports, lengthKnown)
+	v.hinges(m, lengthKnown)
 	v.pointLoads(m.PointLoads, lengthKnown)
 	v.distributedLoads(m.DistributedLoad, lengthKnown)
 	for i, g := range m.Gravity {
@@ -420,6 +421,46 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 			if s.Kind.Restrains(d) {
 				v.finite(Place{Item: it, Property: SettlementProperty, Dof: d}, fmt.Sprintf("the %s settlement", d), s.Settlement[d], dofUnits[d])
 			}
+		}
+	}
+}
+
+// hinges checks the moment releases: inside the member, one per point, not
+// where a support holds the rotation (which side would it hold?), a
+// spring stiffness in range, and not on an axial-only member.
+func (v *validator) hinges(m *Model, lengthKnown bool) {
+	for i, h := range m.Hinges {
+		it := Item{Kind: HingeItem, Index: i}
+		at := Place{Item: it, Property: PositionProperty}
+		if !v.position(at, "its position", h.X, lengthKnown) {
+			continue
+		}
+		if lengthKnown && (h.X <= v.tol || h.X >= v.L-v.tol) {
+			v.add(at, fmt.Sprintf("hinge %d is at an end of the member (x = %s), where there is nothing on the other side to release: move it inside the member or remove it", i+1, fmtMetres(h.X)))
+			continue
+		}
+		for j := 0; j < i; j++ {
+			if math.Abs(m.Hinges[j].X-h.X) <= v.tol {
+				v.add(at, fmt.Sprintf("hinges %d and %d are both at x = %s: keep one hinge per point", j+1, i+1, fmtMetres(h.X)))
+			}
+		}
+		for k, s := range m.Supports {
+			if math.Abs(s.X-h.X) <= v.tol && s.Holds(Rotation) {
+				v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), which holds the rotation: it cannot say which side the support holds; move the hinge off the support, or choose a support kind that lets the member turn (pinned, roller)", i+1, k+1, fmtMetres(h.X)))
+			}
+		}
+		k := h.Stiffness
+		stiff := Place{Item: it, Property: StiffnessProperty}
+		switch {
+		case !isFinite(k):
+			v.add(stiff, fmt.Sprintf("hinge %d: the rotational stiffness is %v: enter a finite value in N·m/rad, or 0 for a pure hinge", i+1, k))
+		case k < 0:
+			v.add(stiff, fmt.Sprintf("hinge %d: the rotational stiffness is %s N·m/rad: it must not be negative (0 makes a pure hinge)", i+1, fmtNumber(k)))
+		case k > 0 && (k < minStiffness || k > maxStiffness):
+			v.add(stiff, fmt.Sprintf("hinge %d: the rotational stiffness is %s N·m/rad, outside the range the solvers work in (%s to %s): enter a stiffness in that range, 0 for a pure hinge, or remove the hinge for a rigid joint", i+1, fmtNumber(k), fmtNumber(minStiffness), fmtNumber(maxStiffness)))
+		}
+		if m.AxialOnly {
+			v.add(at, fmt.Sprintf("hinge %d releases the bending moment, but %s: remove the hinge, or let the member bend", i+1, axialOnlyWhy))
 		}
 	}
 }

@@ -404,6 +404,13 @@ func (r *reader) project(top *fields) *Project {
 		p.Model.Supports = append(p.Model.Supports, r.support(r.object(paths[i], item)))
 	}
 
+	items, paths = top.list("hinges", false, "")
+	for i, item := range items {
+		h := r.object(paths[i], item)
+		p.Model.Hinges = append(p.Model.Hinges, fem.Hinge{X: h.number("x", "m", true), Stiffness: h.number("stiffness", "N·m/rad", false)})
+		h.finish()
+	}
+
 	items, paths = top.list("loads", false, "")
 	for i, item := range items {
 		r.load(p, r.object(paths[i], item))

@@ -27,6 +27,7 @@ type (
 		Notes             fileNotes       `json:"notes,omitzero"`
 		Member            fileMember      `json:"member"`
 		Supports          []fileSupport   `json:"supports"`
+		Hinges            []fileHinge     `json:"hinges,omitempty"`
 		Loads             []any           `json:"loads,omitempty"`
 		SelfWeight        *fileGravity    `json:"self_weight,omitempty"`
 		TemperatureChange number          `json:"temperature_change,omitempty"`
@@ -67,6 +68,10 @@ type (
 		Kind       string      `json:"kind"`
 		Stiffness  *fileMotion `json:"stiffness,omitempty"`
 		Settlement *fileMotion `json:"settlement,omitempty"`
+	}
+	fileHinge struct {
+		X         number `json:"x"`
+		Stiffness number `json:"stiffness,omitempty"`
 	}
 	// fileMotion holds one value per degree of freedom.
 	fileMotion struct {
@@ -269,6 +274,10 @@ func (c *converter) toFile(p *Project) fileProject {
 				Allowable:        c.num(path+".material.allowable_stress", s.Material.Allowable),
 			},
 		}
+	}
+	for i, h := range m.Hinges {
+		path := fmt.Sprintf("hinges[%d]", i)
+		f.Hinges = append(f.Hinges, fileHinge{X: c.num(path+".x", h.X), Stiffness: c.num(path+".stiffness", h.Stiffness)})
 	}
 	for i, s := range m.Supports {
 		path := fmt.Sprintf("supports[%d]", i)

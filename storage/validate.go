@@ -62,6 +62,8 @@ func modelPath(at fem.Place, loads [2][]string) string {
 		item = fmt.Sprintf("member.segments[%d]", at.Item.Index)
 	case fem.SupportItem:
 		item = fmt.Sprintf("supports[%d]", at.Item.Index)
+	case fem.HingeItem:
+		item = fmt.Sprintf("hinges[%d]", at.Item.Index)
 	case fem.PointLoadItem:
 		item = indexed(loads[PointLoad], at.Item.Index)
 	case fem.DistributedLoadItem:

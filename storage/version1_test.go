@@ -2,8 +2,10 @@ package storage
 
 import (
 	"os"
+
 	"path/filepath"
 	"reflect"
+	"stave/fem"
 	"testing"
 )
 
@@ -49,5 +51,14 @@ func TestVersion2Additions(t *testing.T) {
 	}
 	if !back.Model.AxialOnly || back.Model.Supports[1].Stiffness != [3]float64{0, 0, 4.5e6} {
 		t.Errorf("read back axial-only %v, support %+v", back.Model.AxialOnly, back.Model.Supports[1])
+	}
+	p = goldenProject()
+	p.Model.Hinges = []fem.Hinge{{X: 1.2}, {X: 3.1, Stiffness: 2e6}}
+	back, err = Unmarshal(mustMarshal(t, p))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !reflect.DeepEqual(back.Model.Hinges, p.Model.Hinges) {
+		t.Errorf("hinges read back as %+v, want %+v", back.Model.Hinges, p.Model.Hinges)
 	}
 }

@@ -1,0 +1,132 @@
+package fem
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strings"
+	"testing"
+)
+
+// A beam fixed at x = 0, with a hinge at x = a and a roller at x = L, under
+// a uniform load q (w < 0 down), is statically determinate (a cantilever
+// carrying a suspended span): the span from the hinge to the roller is
+// simply supported, so the roller and the hinge each take q(L−a)/2; the
+// cantilever carries q·a and the hinge's force, so the fixed end takes
+// q·a + q(L−a)/2 and the moment q·a²/2 + q(L−a)·a/2 (statics). FE and exact
+// must both give them, and no bending moment at the hinge.
+func TestHingeSuspendedSpan(t *testing.T) {
+	const L, a, q = 8.0, 2.5, -6e3
+	m := &Model{
+		Segments:        []Segment{testSegment(0, L)},
+		Supports:        []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Roller}},
+		Hinges:          []Hinge{{X: a}},
+		DistributedLoad: []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, q}, {L, q}}}},
+		Mesh:            MeshSettings{Elements: 32},
+	}
+	W := -q
+	wantFixed, wantMoment, wantRoller := W*a+W*(L-a)/2, W*a*a/2+W*(L-a)*a/2, W*(L-a)/2
+	s := mustSolve(t, m)
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for name, r := range map[string][]Reaction{"FE": s.Reactions, "exact": e.Reactions()} {
+		if got := r[0].Force[Transverse]; relErr(got, wantFixed) > 1e-9 {
+			t.Errorf("%s fixed-end force %.9g, want %.9g", name, got, wantFixed)
+		}
+		if got := r[0].Force[Rotation]; relErr(got, wantMoment) > 1e-9 {
+			t.Errorf("%s fixed-end moment %.9g, want %.9g", name, got, wantMoment)
+		}
+		if got := r[1].Force[Transverse]; relErr(got, wantRoller) > 1e-9 {
+			t.Errorf("%s roller force %.9g, want %.9g", name, got, wantRoller)
+		}
+	}
+	// The finite element moment is linear in an element: off by at most
+	// q·h²/8 from the exact one (interpolation error, Strang & Fix, from memory).
+	h := L / 32
+	for name, f := range map[string]Field{"FE": s, "exact": e} {
+		tol := 1e-9 * W * L * L
+		if name == "FE" {
+			tol = W * h * h / 8
+		}
+		for _, side := range []Side{Left, Right} {
+			if got := f.At(a, side).BendingMoment; math.Abs(got) > tol {
+				t.Errorf("%s moment at the hinge (side %d): %.3g, want 0 within %.3g", name, side, got, tol)
+			}
+		}
+	}
+	// The deflection is continuous at the hinge, the rotation jumps.
+	if l, r := e.At(a, Left), e.At(a, Right); math.Abs(l.Deflection-r.Deflection) > 1e-12 || math.Abs(l.Rotation-r.Rotation) < 1e-6 {
+		t.Errorf("exact at the hinge: w %.6g|%.6g, θ %.6g|%.6g; want w continuous and θ jumping", l.Deflection, r.Deflection, l.Rotation, r.Rotation)
+	}
+	if l, r := s.At(a, Left), s.At(a, Right); math.Abs(l.Rotation-e.At(a, Left).Rotation) > 1e-9 || math.Abs(r.Rotation-e.At(a, Right).Rotation) > 1e-9 {
+		t.Errorf("FE rotations at the hinge %.9g|%.9g, exact %.9g|%.9g", l.Rotation, r.Rotation, e.At(a, Left).Rotation, e.At(a, Right).Rotation)
+	}
+}
+
+// Two equal spans under a uniform load q with a semi-rigid joint of
+// stiffness k over the middle support: each span is simply supported with
+// an end moment M at the joint, turning by qL³/(24EI) − M·L/(3EI) there, and
+// the joint's spring gives M = k·Δθ with Δθ twice that, so
+// M = (k·qL³/(12EI)) / (1 + 2kL/(3EI)) (slope-deflection, Gere & Goodno,
+// from memory): 0 for a pure hinge and qL²/8 for a rigid joint (the
+// continuous beam, AISC beam diagrams case 29, from memory).
+func TestSemiRigidJoint(t *testing.T) {
+	const L, q = 5.0, -10e3
+	ei := testE * testI
+	W := -q
+	for _, k := range []float64{0, 1e-3 * ei / L, ei / L, 1e3 * ei / L} {
+		t.Run(fmt.Sprintf("k = %.3g", k), func(t *testing.T) {
+			m := &Model{
+				Segments:        []Segment{testSegment(0, 2*L)},
+				Supports:        []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}, {X: 2 * L, Kind: Roller}},
+				Hinges:          []Hinge{{X: L, Stiffness: k}},
+				DistributedLoad: []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, q}, {2 * L, q}}}},
+				Mesh:            MeshSettings{Elements: 40},
+			}
+			want := -(k * W * L * L * L / (12 * ei)) / (1 + 2*k*L/(3*ei)) // hogging
+			s := mustSolve(t, m)
+			e, err := SolveExact(m)
+			if err != nil {
+				t.Fatal(err)
+			}
+			h := 2 * L / 40
+			for name, f := range map[string]Field{"FE": s, "exact": e} {
+				tol := 1e-9 * W * L * L
+				if name == "FE" {
+					tol = W * h * h / 8 // the FE moment's interpolation error
+				}
+				if got := f.At(L, Left).BendingMoment; math.Abs(got-want) > tol {
+					t.Errorf("%s moment at the joint %.9g, want %.9g within %.3g", name, got, want, tol)
+				}
+			}
+			if want != 0 && (math.Abs(want) > W*L*L/8 || math.Abs(want) < 0) {
+				t.Errorf("moment %.6g outside the pinned and fixed limits", want)
+			}
+		})
+	}
+}
+
+// A hinge in a simply supported span makes it a mechanism: refused, naming
+// the part that can move, with the free motion's shape.
+func TestHingeMechanism(t *testing.T) {
+	m := &Model{
+		Segments:   []Segment{testSegment(0, 6)},
+		Supports:   []Support{{X: 0, Kind: Pinned}, {X: 6, Kind: Roller}},
+		Hinges:     []Hinge{{X: 2}},
+		PointLoads: []PointLoad{{X: 3, Transverse: -1e3}},
+		Mesh:       MeshSettings{Elements: 6},
+	}
+	var mech *MechanismError
+	_, err := Solve(m)
+	if !errors.As(err, &mech) || !strings.Contains(mech.Message, "the part from x = 0.0 m to 2.0 m can turn about x = 0.0 m") || len(mech.Parts) != 2 {
+		t.Fatalf("got %v, want a mechanism of two parts naming the part turning about x = 0", err)
+	}
+	if _, err := SolveExact(m); !errors.As(err, &mech) {
+		t.Errorf("exact: %v, want the mechanism too", err)
+	}
+	// A rotational spring across the hinge makes it sound again.
+	m.Hinges[0].Stiffness = 1e6
+	mustSolve(t, m)
+}
