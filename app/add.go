@@ -200,9 +200,7 @@ func newAddForm(w *Window) *addForm {
 	}
 	f.choice = widget.NewSelect(nil, func(string) { f.showFields() })
 	f.kind = widget.NewSelect(names, func(name string) { f.choose(name) })
-	f.content = container.NewVBox(
-		container.New(layout.NewFormLayout(), widget.NewLabel("Add"), f.kind),
-		f.form, f.hint, f.message)
+	f.content = container.NewVBox(f.form, f.hint, f.message)
 	f.kind.SetSelected(names[0])
 	return f
 }
@@ -246,7 +244,7 @@ func (f *addForm) supportKind() fem.SupportKind {
 func (f *addForm) showFields() {
 	u := f.w.units
 	f.fields = f.current.fields(f)
-	f.form.Objects = nil
+	f.form.Objects = []fyne.CanvasObject{widget.NewLabel("Add"), f.kind}
 	switch f.current.name {
 	case "Support":
 		f.form.Add(widget.NewLabel("Kind"))
@@ -408,7 +406,7 @@ func (w *Window) showAddForm() {
 	add := widget.NewButton("Add", func() { f.submit() })
 	add.Importance = widget.HighImportance
 	d.SetButtons([]fyne.CanvasObject{widget.NewButton("Cancel", d.Hide), add})
-	d.Resize(fyne.NewSize(600, 520))
+	d.Resize(fyne.NewSize(600, 470))
 	d.Show()
 	if e, ok := f.entries[f.fields[0].key]; ok {
 		w.win.Canvas().Focus(e)

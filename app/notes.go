@@ -123,4 +123,5 @@ func (w *Window) showNotesForm() {
 	d.SetButtons([]fyne.CanvasObject{widget.NewButton("Cancel", func() { d.Hide() }), save})
 	d.Resize(fyne.NewSize(620, 460))
 	d.Show()
+	w.win.Canvas().Focus(f.entries[0])
 }

@@ -101,9 +101,9 @@ func (w *Window) build() {
 	readoutAndChecks := container.NewVSplit(c.readout.pane(), c.checks.pane())
 	readoutAndChecks.SetOffset(0.5)
 	side := container.NewVSplit(c.properties, readoutAndChecks)
-	side.SetOffset(0.4)
+	side.SetOffset(0.38)
 
-	below := container.NewVBox(c.layerBar(), c.meshBar())
+	below := newFlow(append(c.layerBar(), c.meshBar()...)...)
 	center := container.NewBorder(c.actionBar(), below, nil, nil, w.draw)
 	warning := widget.NewLabelWithStyle(caution, fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
 	warning.Importance = widget.WarningImportance
@@ -188,8 +188,8 @@ func barOrders() (orders []barOrder, beam string) {
 	return orders, beam
 }
 
-// meshBar holds the mesh settings below the drawing.
-func (c *controls) meshBar() fyne.CanvasObject {
+// meshBar makes the mesh settings shown below the drawing.
+func (c *controls) meshBar() []fyne.CanvasObject {
 	w := c.w
 	c.elements = widget.NewEntry()
 	c.elements.OnSubmitted = func(s string) { w.setElements(s) }
@@ -209,9 +209,9 @@ func (c *controls) meshBar() fyne.CanvasObject {
 		}
 	})
 	c.elementsUsed = widget.NewLabel("")
-	return newFlow(
+	return []fyne.CanvasObject{
 		container.NewHBox(widget.NewLabel("Elements"), fixedWidth(80, c.elements), c.elementsUsed, finer, coarser),
-		container.NewHBox(widget.NewLabel(beam+" · axial:"), c.order))
+		container.NewHBox(widget.NewLabel(beam+" · axial:"), c.order)}
 }
 
 // orderOf is the bar order of mesh settings, LinearBar when unset.
@@ -227,8 +227,8 @@ func fixedWidth(px float32, o fyne.CanvasObject) fyne.CanvasObject {
 	return container.NewGridWrap(fyne.NewSize(px, o.MinSize().Height), o)
 }
 
-// layerBar holds the overlay switches and the deflection scale below the drawing.
-func (c *controls) layerBar() fyne.CanvasObject {
+// layerBar makes the overlay switches and the deflection scale shown below the drawing.
+func (c *controls) layerBar() []fyne.CanvasObject {
 	w := c.w
 	toggle := func(label string, on *bool) fyne.CanvasObject {
 		ch := widget.NewCheck(label, func(v bool) {
@@ -255,12 +255,12 @@ func (c *controls) layerBar() fyne.CanvasObject {
 	})
 	c.magnifyText = widget.NewLabel("")
 	c.showMagnification()
-	return newFlow(
+	return []fyne.CanvasObject{
 		toggle("Deflected shape", &o.DeformedShape), toggle("Axial force N", &o.AxialForce),
 		toggle("Shear force V", &o.ShearForce), toggle("Bending moment M", &o.BendingMoment),
 		toggle("Stress σ", &o.Stress), toggle("Nodes", &o.Nodes),
 		toggle("Exact vs FE gap", &o.ExactBand), toggle("Dimensions", &w.dimensions),
-		container.NewHBox(widget.NewLabel("Deflection scale"), fixedWidth(150, c.magnify), c.magnifyText, auto))
+		container.NewHBox(widget.NewLabel("Deflection scale"), fixedWidth(150, c.magnify), c.magnifyText, auto)}
 }
 
 func (c *controls) showMagnification() {

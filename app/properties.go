@@ -204,11 +204,11 @@ func (c *controls) showProperties() {
 }
 
 // typingHint says how typed numbers are read, with an example in the
-// display units of the panel's first quantity that is not a position.
+// display units of the panel's first load, or else of its first field.
 func (w *Window) typingHint(fields []field) string {
 	q := fields[0].q
 	for _, f := range fields {
-		if f.q != units.Position {
+		if f.q == units.Force || f.q == units.Moment || f.q == units.LineLoad {
 			q = f.q
 			break
 		}
@@ -308,7 +308,14 @@ func (w *Window) applyFields(title string, r canvas.Ref, fields []field, entries
 	if !anyChanged {
 		return nil
 	}
-	return w.apply("edit "+strings.ToLower(title[:1])+title[1:], func(m *fem.Model) error {
+	var names []string
+	for k, f := range fields {
+		if changed[k] {
+			names = append(names, strings.ToLower(f.label[:1])+f.label[1:])
+		}
+	}
+	name := "edit " + strings.ToLower(title[:1]) + title[1:] + ": " + strings.Join(names, ", ")
+	return w.apply(name, func(m *fem.Model) error {
 		for k, f := range fields {
 			if !changed[k] {
 				continue
