@@ -2,6 +2,7 @@ package app
 
 import (
 	"math"
+	"strings"
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/driver/desktop"
@@ -32,16 +33,9 @@ func ctrl(key fyne.KeyName, extra fyne.KeyModifier) fyne.Shortcut {
 }
 
 // plain is a key pressed alone. The window reads such keys itself when no
-// entry has the focus (typedKey, typedRune); as a menu item's shortcut it
-// only shows the key, since the toolkit makes shortcuts of modified keys only.
+// entry has the focus (bindKeys); as a menu item's shortcut it only shows
+// the key, since the toolkit makes shortcuts of modified keys only.
 func plain(key fyne.KeyName) fyne.Shortcut { return &desktop.CustomShortcut{KeyName: key} }
-
-// modified reports whether s is pressed with a modifier, so the toolkit
-// delivers it as a shortcut.
-func modified(s fyne.Shortcut) bool {
-	k, ok := s.(fyne.KeyboardShortcut)
-	return !ok || k.Mod() != 0
-}
 
 // dialogOpen reports whether a dialog (or any pop-up) covers the window.
 // Keys and menu commands then leave the model alone: the dialog has the
@@ -126,21 +120,28 @@ func (w *Window) setMainMenu() {
 	w.bindKeys(m)
 }
 
-// bindKeys binds the keyboard. The modified keys of the menu items become
-// shortcuts of the canvas too: on the desktop the toolkit offers a shortcut
-// to the main menu first, so they work wherever the focus is, and the
-// canvas takes them where there is no menu bar. Ctrl+Shift+Z redoes as
+// bindKeys binds the keyboard to the items of the main menu m, whose
+// actions do nothing while a dialog is open. Modified keys become
+// shortcuts of the canvas too: on the desktop the toolkit offers a
+// shortcut to the main menu first, so they work wherever the focus is, and
+// the canvas takes them where there is no menu bar. Ctrl+Shift+Z redoes as
 // well as Ctrl+Y. Plain keys (tool letters, Delete, Escape) act when no
-// entry has the focus. Nothing acts while a dialog is open.
+// entry has the focus, which has them otherwise.
 func (w *Window) bindKeys(m *fyne.MainMenu) {
 	c := w.win.Canvas()
+	plainKeys := map[fyne.KeyName]func(){}
 	var bind func(items []*fyne.MenuItem)
 	bind = func(items []*fyne.MenuItem) {
 		for _, it := range items {
 			if it.ChildMenu != nil {
 				bind(it.ChildMenu.Items)
 			}
-			if it.Shortcut != nil && it.Action != nil && modified(it.Shortcut) {
+			k, ok := it.Shortcut.(fyne.KeyboardShortcut)
+			switch {
+			case it.Action == nil || it.Shortcut == nil:
+			case ok && k.Mod() == 0:
+				plainKeys[k.Key()] = it.Action
+			default:
 				run := it.Action
 				c.AddShortcut(it.Shortcut, func(fyne.Shortcut) { run() })
 			}
@@ -151,50 +152,27 @@ func (w *Window) bindKeys(m *fyne.MainMenu) {
 	}
 	redo := w.guarded(w.redo)
 	c.AddShortcut(keyRedoShift, func(fyne.Shortcut) { redo() })
+	for key, same := range keyAliases {
+		plainKeys[key] = plainKeys[same]
+	}
+	// A printable key arrives both as a key and as a character: the
+	// character is what counts, so = and + zoom alike on any keyboard.
 	c.SetOnTypedKey(func(k *fyne.KeyEvent) {
-		if !w.dialogOpen() {
-			w.typedKey(k.Name)
+		if f := plainKeys[k.Name]; f != nil && len(k.Name) > 1 {
+			f()
 		}
 	})
 	c.SetOnTypedRune(func(r rune) {
-		if !w.dialogOpen() {
-			w.typedRune(r)
+		if f := plainKeys[fyne.KeyName(strings.ToUpper(string(r)))]; f != nil {
+			f()
 		}
 	})
 }
 
-// typedKey handles the named keys pressed alone.
-func (w *Window) typedKey(k fyne.KeyName) {
-	switch k {
-	case fyne.KeyDelete, fyne.KeyBackspace:
-		w.deleteSelected()
-	case fyne.KeyEscape:
-		w.selectNothing()
-	}
-}
-
-// typedRune handles the one-letter commands.
-func (w *Window) typedRune(r rune) {
-	switch r {
-	case 'a', 'A':
-		w.showAddForm()
-		return
-	case 'f', 'F':
-		w.draw.fit()
-		return
-	case '+', '=':
-		w.zoomCentre(zoomStep)
-		return
-	case '-':
-		w.zoomCentre(1 / zoomStep)
-		return
-	}
-	for _, t := range tools {
-		if r == t.key || r == t.key-'a'+'A' {
-			w.setTool(t.tool)
-			return
-		}
-	}
+// keyAliases are keys that do what another key of the menus does.
+var keyAliases = map[fyne.KeyName]fyne.KeyName{
+	fyne.KeyBackspace: fyne.KeyDelete,
+	fyne.KeyEqual:     fyne.KeyPlus,
 }
 
 // selectNothing drops the selection and goes back to the Pick tool.
@@ -221,10 +199,7 @@ func (w *Window) zoomCentre(f float64) { w.zoom(f, w.draw.view.Width/2) }
 // zoomOutMost and zoomInMost of the scale that fits the member.
 func (w *Window) zoom(f float64, aroundX float32) {
 	v := &w.draw.view
-	fitted := v.Scale
-	if fit := w.draw.fittedView(); fit.Scale > 0 {
-		fitted = fit.Scale
-	}
+	fitted := w.draw.fittedView().Scale
 	target := math.Max(fitted*zoomOutMost, math.Min(fitted*zoomInMost, v.Scale*f))
 	if target == v.Scale {
 		return

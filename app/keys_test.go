@@ -4,13 +4,13 @@ import (
 	"errors"
 	"fmt"
 	"reflect"
+	"strings"
 	"testing"
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/driver/desktop"
 	"fyne.io/fyne/v2/test"
-	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
 	"stave/fem"
@@ -230,22 +230,38 @@ func TestEscapeOnUnsavedChanges(t *testing.T) {
 	}
 }
 
-// Tool letters pick tools when no widget has the focus, and type into an
-// entry that has it.
-func TestToolLetters(t *testing.T) {
+// The plain keys the menus show act when no widget has the focus, and
+// type into an entry that has it.
+func TestPlainKeys(t *testing.T) {
+	for _, c := range []struct {
+		key  rune
+		want func(w *Window, fitted float64) bool
+	}{
+		{'r', func(w *Window, _ float64) bool { return w.tool == toolSupport }},
+		{'L', func(w *Window, _ float64) bool { return w.tool == toolLineLoad }},
+		{'a', func(w *Window, _ float64) bool { return w.win.Canvas().Overlays().Top() != nil }},
+		{'+', func(w *Window, fitted float64) bool { return w.draw.view.Scale > fitted }},
+		{'=', func(w *Window, fitted float64) bool { return w.draw.view.Scale > fitted }},
+		{'-', func(w *Window, fitted float64) bool { return w.draw.view.Scale < fitted }},
+	} {
+		w, _ := newTestWindow(t, demoProject(t))
+		fitted := w.draw.view.Scale
+		typeRune(w, c.key)
+		if !c.want(w, fitted) {
+			t.Errorf("%c did not do what the menus say", c.key)
+		}
+	}
 	w, _ := newTestWindow(t, demoProject(t))
-	typeRune(w, 'r')
-	if w.tool != toolSupport {
-		t.Errorf("R picked tool %d, want the support tool", w.tool)
+	w.zoomCentre(3)
+	typeRune(w, 'f')
+	if w.draw.view != w.draw.fittedView() {
+		t.Error("F did not fit the member")
 	}
 	e := w.ui.elements
 	w.win.Canvas().Focus(e)
 	test.Type(e, "l")
-	if w.tool != toolSupport {
-		t.Errorf("typing L into the element count picked tool %d", w.tool)
-	}
-	if _, ok := w.win.Canvas().Focused().(*widget.Entry); !ok {
-		t.Error("the entry lost the focus")
+	if w.tool != toolPick || !strings.Contains(e.Text, "l") {
+		t.Errorf("typing L into the element count picked tool %d; the entry reads %q", w.tool, e.Text)
 	}
 }
 
