@@ -2,13 +2,11 @@ package app
 
 import (
 	"fmt"
-	"image/color"
 	"math"
 	"strconv"
 	"strings"
 
 	"fyne.io/fyne/v2"
-	fynecanvas "fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
@@ -120,29 +118,6 @@ func (w *Window) build() {
 	content.Resize(w.win.Canvas().Size().Max(fyne.NewSize(startWidth, startHeight)))
 	w.setMainMenu()
 	w.setTool(toolPick)
-}
-
-// importanceColour is the theme colour of text of importance i.
-func importanceColour(i widget.Importance) color.Color {
-	name := theme.ColorNameForeground
-	switch i {
-	case widget.DangerImportance:
-		name = theme.ColorNameError
-	case widget.WarningImportance:
-		name = theme.ColorNameWarning
-	case widget.SuccessImportance:
-		name = theme.ColorNameSuccess
-	case widget.LowImportance:
-		name = theme.ColorNameDisabled
-	}
-	return theme.Color(name)
-}
-
-// minHeight gives o at least h pixels of height.
-func minHeight(h float32, o fyne.CanvasObject) fyne.CanvasObject {
-	r := fynecanvas.NewRectangle(color.Transparent)
-	r.SetMinSize(fyne.NewSize(0, h))
-	return container.NewStack(r, o)
 }
 
 func heading(s string) *widget.Label {
