@@ -273,8 +273,8 @@ func (f *addForm) showFields() {
 		f.form.Add(e)
 	}
 	f.form.Refresh()
-	f.hint.SetText(fmt.Sprintf("A number alone is in the unit shown; one with a unit is converted (e.g. %s, or %s for a position). Loads follow the signs in brackets: a downward force is negative. The member is %s long.",
-		"12 "+u.Unit(units.Force).Symbol, "300 "+units.SI.Unit(units.Dimension).Symbol, f.w.position(f.w.project.Model.Length())))
+	f.hint.SetText(fmt.Sprintf("A number alone is in the unit shown; one with a unit is converted (e.g. 12 %s, or %s for a position). Loads follow the signs in brackets: a downward force is negative. The member is %s long.",
+		u.Unit(units.Force).Symbol, "250 "+u.Unit(units.Dimension).Symbol, f.w.position(f.w.project.Model.Length())))
 	f.message.SetText("")
 }
 

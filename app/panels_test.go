@@ -77,6 +77,10 @@ func TestTypingHintFollowsUnits(t *testing.T) {
 	if got := w.typingHint(w.ui.panel.fields); !strings.Contains(got, "12 kip") || strings.Contains(got, "kN") {
 		t.Errorf("US hint %q", got)
 	}
+	f := newAddForm(w)
+	if got := f.hint.Text; !strings.Contains(got, "12 kip") || strings.Contains(got, "kN") || strings.Contains(got, "mm") {
+		t.Errorf("US hint of the Add form %q", got)
+	}
 }
 
 // The mesh bar names the elements as fem does and counts them in good English.
