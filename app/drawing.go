@@ -100,14 +100,21 @@ func (d *drawing) MinSize() fyne.Size { return fyne.NewSize(360, 260) }
 
 // fit shows the whole member; an empty sketch shows 0 to 10 m to draw in.
 func (d *drawing) fit() {
+	d.view = d.fittedView()
+	d.Refresh()
+}
+
+// fittedView is the view of the drawing's size that fits the member.
+func (d *drawing) fittedView() canvas.View {
+	v := canvas.NewView(d.view.Width, d.view.Height)
 	m := &d.w.project.Model
 	if m.Length() > 0 {
-		d.view.Fit(m)
+		v.Fit(m)
 	} else {
 		empty := newMember(10)
-		d.view.Fit(&empty)
+		v.Fit(&empty)
 	}
-	d.Refresh()
+	return v
 }
 
 // metresPerPixel at the current zoom.
@@ -168,9 +175,7 @@ func (d *drawing) DragEnd() {
 
 // Scrolled is part of fyne.Scrollable: the wheel zooms about the mouse.
 func (d *drawing) Scrolled(ev *fyne.ScrollEvent) {
-	factor := float32(math.Exp(float64(ev.Scrolled.DY) * 0.02))
-	d.view.Zoom(factor, ev.Position.X)
-	d.Refresh()
+	d.w.zoom(wheelZoom(ev.Scrolled.DY), ev.Position.X)
 }
 
 // MouseIn is part of desktop.Hoverable.

@@ -12,7 +12,6 @@ import (
 	"fyne.io/fyne/v2"
 	fyneapp "fyne.io/fyne/v2/app"
 	"fyne.io/fyne/v2/dialog"
-	"fyne.io/fyne/v2/driver/desktop"
 	storagefilter "fyne.io/fyne/v2/storage"
 	"fyne.io/fyne/v2/widget"
 	native "github.com/sqweek/dialog"
@@ -36,11 +35,9 @@ func Run(path string) error {
 		return err
 	}
 	w := NewWindow(a, p.project, path)
+	w.startedOn(p)
 	w.win.SetMaster()
 	w.Show()
-	if p.problem != "" {
-		w.setStatus("%s", p.problem)
-	}
 	w.offerRecovery()
 	a.Run()
 	return nil
@@ -49,6 +46,7 @@ func Run(path string) error {
 // opened is the project a run starts with, and what went wrong finding it.
 type opened struct {
 	project *storage.Project
+	demo    bool // the project is the built-in demo
 	problem string
 }
 
@@ -58,7 +56,7 @@ func startProject(path string) (opened, error) {
 	if path != "" {
 		p, err := storage.Load(path)
 		if err != nil {
-			return opened{}, fmt.Errorf("cannot open %s: %w", path, err)
+			return opened{}, err // it names the file already
 		}
 		return opened{project: p}, nil
 	}
@@ -67,7 +65,19 @@ func startProject(path string) (opened, error) {
 		empty := storage.Project{View: storage.DefaultView()}
 		return opened{project: &empty, problem: err.Error() + "; starting with an empty sketch"}, nil
 	}
-	return opened{project: p}, nil
+	return opened{project: p, demo: true}, nil
+}
+
+// startedOn names the window after what it started on and says what went
+// wrong finding it.
+func (w *Window) startedOn(o opened) {
+	if o.demo {
+		w.name = demoTitle
+		w.updateTitle()
+	}
+	if o.problem != "" {
+		w.setStatus("%s", o.problem)
+	}
 }
 
 // defaultRecoveryDir is where autosaved copies go.
@@ -77,99 +87,6 @@ func defaultRecoveryDir() string {
 		return ""
 	}
 	return filepath.Join(dir, "stave", "recovery")
-}
-
-func (w *Window) mainMenu() *fyne.MainMenu {
-	recent := fyne.NewMenuItem("Open recent", nil)
-	recent.ChildMenu = fyne.NewMenu("")
-	w.fillRecent(recent.ChildMenu)
-	exports := fyne.NewMenuItem("Export", nil)
-	exports.ChildMenu = w.exportMenu()
-	file := fyne.NewMenu("File",
-		fyne.NewMenuItem("New", w.newProject),
-		fyne.NewMenuItem("Open…", w.openDialog),
-		recent,
-		fyne.NewMenuItemSeparator(),
-		fyne.NewMenuItem("Save", func() { w.save(nil) }),
-		fyne.NewMenuItem("Save as…", func() { w.saveAs(nil) }),
-		fyne.NewMenuItemSeparator(),
-		exports,
-	)
-	edit := fyne.NewMenu("Edit",
-		fyne.NewMenuItem("Undo", w.undo),
-		fyne.NewMenuItem("Redo", w.redo),
-		fyne.NewMenuItem("Delete selected", w.deleteSelected),
-	)
-	studies := fyne.NewMenu("Study",
-		fyne.NewMenuItem("Convergence study", w.runConvergence),
-		fyne.NewMenuItem("Adaptive refinement…", w.runAdaptive),
-		fyne.NewMenuItem("Back to the uniform mesh", w.uniformMesh),
-		fyne.NewMenuItem("Cancel the running study", w.cancelStudy),
-		fyne.NewMenuItemSeparator(),
-		fyne.NewMenuItem("Check limits…", w.showCheckLimits),
-	)
-	member := fyne.NewMenu("Member",
-		fyne.NewMenuItem("Section calculator…", w.showSectionCalculator),
-		fyne.NewMenuItem("Typical materials…", w.showMaterials),
-	)
-	view := fyne.NewMenu("View",
-		fyne.NewMenuItem("Fit member", w.draw.fit),
-		fyne.NewMenuItem("Zoom in", func() { w.zoom(1.25) }),
-		fyne.NewMenuItem("Zoom out", func() { w.zoom(0.8) }),
-	)
-	return fyne.NewMainMenu(file, edit, member, studies, view)
-}
-
-func (w *Window) zoom(f float32) {
-	w.draw.view.Zoom(f, w.draw.view.Width/2)
-	w.draw.Refresh()
-}
-
-// addShortcuts binds the keyboard: Ctrl combinations anywhere, bare letters
-// when no entry has the focus.
-func (w *Window) addShortcuts() {
-	c := w.win.Canvas()
-	ctrl := func(k fyne.KeyName, mod fyne.KeyModifier, f func()) {
-		c.AddShortcut(&desktop.CustomShortcut{KeyName: k, Modifier: mod}, func(fyne.Shortcut) { f() })
-	}
-	ctrl(fyne.KeyZ, fyne.KeyModifierShortcutDefault, w.undo)
-	ctrl(fyne.KeyZ, fyne.KeyModifierShortcutDefault|fyne.KeyModifierShift, w.redo)
-	ctrl(fyne.KeyY, fyne.KeyModifierShortcutDefault, w.redo)
-	ctrl(fyne.KeyS, fyne.KeyModifierShortcutDefault, func() { w.save(nil) })
-	ctrl(fyne.KeyS, fyne.KeyModifierShortcutDefault|fyne.KeyModifierShift, func() { w.saveAs(nil) })
-	ctrl(fyne.KeyO, fyne.KeyModifierShortcutDefault, w.openDialog)
-	ctrl(fyne.KeyN, fyne.KeyModifierShortcutDefault, w.newProject)
-	c.SetOnTypedKey(func(k *fyne.KeyEvent) {
-		switch k.Name {
-		case fyne.KeyDelete, fyne.KeyBackspace:
-			w.deleteSelected()
-		case fyne.KeyEscape:
-			w.selectItem(canvasNone)
-			w.setTool(toolPick)
-		}
-	})
-	c.SetOnTypedRune(func(r rune) { w.typedRune(r) })
-}
-
-// typedRune handles the one-letter commands.
-func (w *Window) typedRune(r rune) {
-	switch r {
-	case 'f', 'F':
-		w.draw.fit()
-		return
-	case '+', '=':
-		w.zoom(1.25)
-		return
-	case '-':
-		w.zoom(0.8)
-		return
-	}
-	for _, t := range tools {
-		if r == t.key || r == t.key-'a'+'A' {
-			w.setTool(t.tool)
-			return
-		}
-	}
 }
 
 // chooseFile asks for a file name with the system's dialog, run off the UI
@@ -243,23 +160,47 @@ func (w *Window) fyneFile(save bool, ext string, done func(string)) {
 }
 
 // confirmDiscard runs then at once when there are no unsaved changes, and
-// otherwise after the user agrees to lose them (or saves them first).
+// otherwise asks: Save runs it after a successful save, Discard changes
+// drops the changes (and their autosave) and runs it, Cancel goes back to
+// the work.
 func (w *Window) confirmDiscard(action string, then func()) {
 	if !w.dirty() {
 		then()
 		return
 	}
-	var d dialog.Dialog
-	d = dialog.NewCustomConfirm("Unsaved changes",
-		"Save first", "Discard changes",
-		widget.NewLabel(fmt.Sprintf("The member has changes that are not saved. Save them before you %s?", action)),
-		func(saveFirst bool) {
-			if saveFirst {
-				w.save(then)
-				return
-			}
+	label := widget.NewLabel(fmt.Sprintf("The member has changes that are not saved. Save them before you %s?", action))
+	label.Wrapping = fyne.TextWrapWord
+	w.ask("Unsaved changes", label,
+		choice{"Cancel", widget.MediumImportance, func() { w.setStatus("kept working: nothing was discarded") }},
+		choice{"Discard changes", widget.DangerImportance, func() {
+			w.discardAutosave()
 			then()
-		}, w.win)
+		}},
+		choice{"Save", widget.HighImportance, func() { w.save(then) }},
+	)
+}
+
+// choice is one button of a question.
+type choice struct {
+	label      string
+	importance widget.Importance
+	run        func()
+}
+
+// ask shows a question whose buttons close it and run their choice.
+func (w *Window) ask(title string, content fyne.CanvasObject, choices ...choice) {
+	d := dialog.NewCustomWithoutButtons(title, content, w.win)
+	buttons := make([]fyne.CanvasObject, len(choices))
+	for i, c := range choices {
+		b := widget.NewButton(c.label, func() {
+			d.Hide()
+			c.run()
+		})
+		b.Importance = c.importance
+		buttons[i] = b
+	}
+	d.SetButtons(buttons)
+	d.Resize(fyne.NewSize(min(560, d.MinSize().Width+80), d.MinSize().Height))
 	d.Show()
 }
 
@@ -274,22 +215,24 @@ func (w *Window) closeRequested() {
 // notice they are cancelled; an export half drawn by then is left behind.
 const quitWait = 2 * time.Second
 
-// shutdown stops the background work of the window.
+// shutdown stops the background work of the window. The user has saved
+// or discarded the work by now, so its autosave goes; a previous run's,
+// not yet answered, stays to be offered next time.
 func (w *Window) shutdown() {
 	if w.stopAutosave != nil {
 		w.stopAutosave()
 	}
 	w.solver.stop()
 	w.jobs.stop(quitWait)
-	if w.recoveryDir != "" {
-		_ = storage.ClearRecovery(w.recoveryDir)
-	}
+	w.discardAutosave()
 }
 
 func (w *Window) newProject() {
 	w.confirmDiscard("start a new member", func() {
 		w.replaceProject(&storage.Project{View: storage.DefaultView()}, "")
-		w.setStatus("new member: choose Member (M) and drag along the drawing")
+		w.name = untitled
+		w.updateTitle()
+		w.setStatus("new member: choose Member (M) and drag along the drawing, or type its length under Properties")
 	})
 }
 
@@ -303,7 +246,7 @@ func (w *Window) openDialog() {
 func (w *Window) openPath(path string) {
 	p, err := storage.Load(path)
 	if err != nil {
-		dialog.ShowError(fmt.Errorf("cannot open %s: %w", path, err), w.win)
+		dialog.ShowError(err, w.win) // it names the file and the place in it
 		return
 	}
 	w.replaceProject(p, path)
@@ -346,9 +289,7 @@ func (w *Window) writeProject(path string, then func()) {
 	w.path = path
 	w.saved = cloneProject(w.project)
 	w.addRecent(path)
-	if w.recoveryDir != "" {
-		_ = storage.ClearRecovery(w.recoveryDir)
-	}
+	w.discardAutosave()
 	w.updateTitle()
 	w.setStatus("saved %s", path)
 	// Work in progress is saved as it is, so nothing is lost; say so when
@@ -399,7 +340,7 @@ func (w *Window) addRecent(path string) {
 		}
 	}
 	prefs.SetStringList("recent", list)
-	w.win.SetMainMenu(w.mainMenu())
+	w.setMainMenu()
 }
 
 func (w *Window) fillRecent(m *fyne.Menu) {
@@ -434,13 +375,34 @@ func (w *Window) startAutosave() {
 	w.stopAutosave = func() { t.Stop(); close(quit) }
 }
 
+// autosave copies unsaved work to the recovery folder; once there is
+// none (undone, saved), it removes the copy it made.
 func (w *Window) autosave() {
+	if w.earlierKept {
+		return
+	}
 	if !w.dirty() {
+		w.discardAutosave()
 		return
 	}
 	if err := storage.WriteRecovery(w.recoveryDir, &w.project, w.path); err != nil {
 		w.setStatus("autosave failed: %v", err)
+		return
 	}
+	w.autosaved = true
+}
+
+// discardAutosave removes this window's autosave, so no later start
+// offers work the user saved or chose to discard.
+func (w *Window) discardAutosave() {
+	if !w.autosaved || w.recoveryDir == "" {
+		return
+	}
+	if err := storage.ClearRecovery(w.recoveryDir); err != nil {
+		w.setStatus("%v", err)
+		return
+	}
+	w.autosaved = false
 }
 
 // offerRecovery asks whether to restore unsaved work a previous run left.
@@ -460,18 +422,49 @@ func (w *Window) offerRecovery() {
 	if r.Source != "" {
 		of = r.Source
 	}
-	dialog.ShowConfirm("Restore unsaved work?",
-		fmt.Sprintf("Stave kept a copy of unsaved changes to %s from %s.\nRestore it?", of, r.Written.Local().Format("2 Jan 2006 15:04")),
-		func(yes bool) {
-			if yes {
-				w.replaceProject(r.Project, r.Source)
-				w.saved = storage.Project{}
-				w.updateTitle()
-				w.setStatus("restored unsaved work; save it to keep it")
-				return
+	label := widget.NewLabel(fmt.Sprintf("Stave kept a copy of unsaved changes to %s from %s, when it last stopped without saving them.\n"+
+		"Restore opens them here; Save as… writes them to a file and opens it; Discard deletes the copy; Not now asks again next time.",
+		of, r.Written.Local().Format("2 Jan 2006 15:04")))
+	label.Wrapping = fyne.TextWrapWord
+	// restore shows the recovered work as this window's, belonging to
+	// the file path; saved says the file holds it. The copy is then the
+	// window's own: saving or discarding the work removes it.
+	restore := func(path string, saved bool) {
+		w.replaceProject(r.Project, path)
+		w.autosaved = true
+		if !saved {
+			w.saved = storage.Project{}
+		}
+		w.updateTitle()
+	}
+	w.ask("Restore unsaved work?", label,
+		choice{"Not now", widget.MediumImportance, func() {
+			// There is one autosave: this window's own would replace the copy kept.
+			w.earlierKept = true
+			w.setStatus("the copy stays for the next start; autosave is paused meanwhile, so save your work (Ctrl+S) to keep it")
+		}},
+		choice{"Discard", widget.DangerImportance, func() {
+			if err := storage.ClearRecovery(w.recoveryDir); err != nil {
+				w.setStatus("%v", err)
 			}
-			_ = storage.ClearRecovery(w.recoveryDir)
-		}, w.win)
+		}},
+		choice{"Save as…", widget.MediumImportance, func() {
+			w.chooseFile(true, "Save the restored member as", "Stave member", "json", func(path string) {
+				if err := storage.Save(path, r.Project); err != nil {
+					dialog.ShowError(fmt.Errorf("the restored member was not saved: %w", err), w.win)
+					return
+				}
+				restore(path, true)
+				w.discardAutosave()
+				w.addRecent(path)
+				w.setStatus("saved the restored work as %s", path)
+			})
+		}},
+		choice{"Restore", widget.HighImportance, func() {
+			restore(r.Source, false)
+			w.setStatus("restored unsaved work; save it to keep it")
+		}},
+	)
 }
 
 // writeFile creates path and fills it with write.

@@ -5,11 +5,10 @@ import (
 	"context"
 	"os"
 	"path/filepath"
+	"reflect"
 	"strings"
 	"testing"
 
-	"fyne.io/fyne/v2"
-	"fyne.io/fyne/v2/driver/desktop"
 	"fyne.io/fyne/v2/test"
 
 	"stave/canvas"
@@ -123,7 +122,7 @@ func TestChecksShowFreeMotionAndHighlight(t *testing.T) {
 	solved(t, w, q)
 	for i, r := range w.checks {
 		if r.Span != [2]float64{} {
-			w.ui.checkList.Select(i)
+			w.selectCheck(i)
 			if w.sceneInput().Highlight != r.Span {
 				t.Errorf("selecting check %q highlights %v, want %v", r.Name, w.sceneInput().Highlight, r.Span)
 			}
@@ -131,34 +130,6 @@ func TestChecksShowFreeMotionAndHighlight(t *testing.T) {
 		}
 	}
 	t.Errorf("no check of a loaded simply supported member names a place: %+v", w.checks)
-}
-
-// TestKeys: tool letters pick tools, Delete removes the selection, Ctrl+Z undoes.
-func TestKeys(t *testing.T) {
-	w, _ := newTestWindow(t, demoProject(t))
-	c := w.win.Canvas()
-	w.typedRune('r')
-	if w.tool != toolSupport {
-		t.Errorf("R picked tool %d, want the support tool", w.tool)
-	}
-	n := len(w.Model().Supports)
-	w.selectItem(canvas.Ref{Kind: canvas.Support, Index: 1})
-	c.OnTypedKey()(&fyne.KeyEvent{Name: fyne.KeyDelete})
-	if got := len(w.Model().Supports); got != n-1 {
-		t.Fatalf("Delete left %d supports, want %d", got, n-1)
-	}
-	sc, ok := c.(interface{ TypedShortcut(fyne.Shortcut) })
-	if !ok {
-		t.Fatal("the test canvas takes no shortcuts")
-	}
-	sc.TypedShortcut(&desktop.CustomShortcut{KeyName: fyne.KeyZ, Modifier: fyne.KeyModifierShortcutDefault})
-	if got := len(w.Model().Supports); got != n {
-		t.Errorf("Ctrl+Z after Delete left %d supports, want %d", got, n)
-	}
-	sc.TypedShortcut(&desktop.CustomShortcut{KeyName: fyne.KeyZ, Modifier: fyne.KeyModifierShortcutDefault | fyne.KeyModifierShift})
-	if got := len(w.Model().Supports); got != n-1 {
-		t.Errorf("Ctrl+Shift+Z left %d supports, want %d", got, n-1)
-	}
 }
 
 // TestStartWithoutFileOpensTheDemo: with no file the window opens the
@@ -211,5 +182,178 @@ func TestDesignFailureIsNotUnreliable(t *testing.T) {
 	w.selectItem(canvas.Ref{Kind: canvas.CheckMark, Index: failed})
 	if w.sceneInput().Highlight != w.checks[failed].Span {
 		t.Errorf("clicking the marker highlights %v, want the check's place %v", w.sceneInput().Highlight, w.checks[failed].Span)
+	}
+}
+
+// newRecoveringWindow is a test window that keeps its autosave in dir; the
+// test calls autosave itself instead of waiting for the timer.
+func newRecoveringWindow(t *testing.T, p *storage.Project, dir string) (*Window, *uiQueue) {
+	t.Helper()
+	a := test.NewApp()
+	q := &uiQueue{}
+	w := newWindow(a, p, "", options{post: q.post, recoveryDir: dir})
+	w.win.Show()
+	t.Cleanup(func() { w.solver.stop(); w.jobs.stop(quitWait); a.Quit() })
+	return w, q
+}
+
+// Every question about unsaved work offers Save, Discard changes and
+// Cancel; Cancel keeps the work, the window and its autosave.
+func TestUnsavedChangesCanBeCancelled(t *testing.T) {
+	for _, c := range []struct {
+		name   string
+		action func(w *Window)
+	}{
+		{"New", func(w *Window) { w.newProject() }},
+		{"Open", func(w *Window) { w.openDialog() }},
+		{"Quit", func(w *Window) { w.closeRequested() }},
+	} {
+		dir := t.TempDir()
+		w, _ := newRecoveringWindow(t, demoProject(t), dir)
+		closed := false
+		w.win.SetOnClosed(func() { closed = true })
+		w.apply("move the load", func(m *fem.Model) error { m.PointLoads[0].X += 0.5; return nil })
+		edited := w.Model()
+		w.autosave()
+		c.action(w)
+		_, _, buttons, _ := dialogWidgets(t, w)
+		for _, b := range []string{"Save", "Discard changes", "Cancel"} {
+			buttonNamed(t, buttons, b)
+		}
+		test.Tap(buttonNamed(t, buttons, "Cancel"))
+		if closed || !reflect.DeepEqual(w.Model(), edited) || !w.dirty() || w.win.Canvas().Overlays().Top() != nil {
+			t.Errorf("%s, Cancel: window closed %v, model kept %v, unsaved %v", c.name, closed, reflect.DeepEqual(w.Model(), edited), w.dirty())
+		}
+		if r, err := storage.FindRecovery(dir); r == nil || err != nil {
+			t.Errorf("%s, Cancel: the autosave of the work is gone (%v)", c.name, err)
+		}
+	}
+}
+
+// Work the user discards is not offered again at the next start; work
+// cancelled, kept or left by a crash is.
+func TestRecoveryOffersOnlyKeptWork(t *testing.T) {
+	dir := t.TempDir()
+	sketch := &storage.Project{View: storage.DefaultView(), Model: newMember(4)}
+	w, _ := newRecoveringWindow(t, sketch, dir)
+	w.apply("add a support", func(m *fem.Model) error { addSupport(m, fem.Pinned, 0); return nil })
+	w.autosave()
+	if r, _ := storage.FindRecovery(dir); r == nil {
+		t.Fatal("the unsaved sketch was not autosaved")
+	}
+	// Discard it for a new member, then open another file: the window is
+	// clean, so its autosave must be gone for good.
+	w.newProject()
+	_, _, buttons, _ := dialogWidgets(t, w)
+	test.Tap(buttonNamed(t, buttons, "Discard changes"))
+	path := filepath.Join(t.TempDir(), "other.json")
+	if err := storage.Save(path, demoProject(t)); err != nil {
+		t.Fatal(err)
+	}
+	w.openPath(path)
+	w.autosave()
+	if r, err := storage.FindRecovery(dir); r != nil || err != nil {
+		t.Fatalf("after Discard changes the autosave still holds %d supports (%v)", len(r.Project.Model.Supports), err)
+	}
+	next, _ := newRecoveringWindow(t, demoProject(t), dir)
+	next.offerRecovery()
+	if next.win.Canvas().Overlays().Top() != nil {
+		t.Error("the next start offers to restore discarded work")
+	}
+
+	// Undoing back to the saved state takes the autosave away too.
+	w.apply("move the load", func(m *fem.Model) error { m.PointLoads[0].X += 0.5; return nil })
+	w.autosave()
+	w.undo()
+	w.autosave()
+	if r, _ := storage.FindRecovery(dir); r != nil {
+		t.Error("an autosave of no unsaved changes is left behind")
+	}
+}
+
+// The recovery question: Not now keeps the copy for the next start (and
+// the window does not autosave over it), Discard deletes it, Restore
+// shows the work as unsaved changes.
+func TestRecoveryQuestion(t *testing.T) {
+	kept := demoProject(t)
+	kept.Model.PointLoads[0].X = 1.25
+	for _, c := range []struct {
+		answer   string
+		wantFile bool
+		wantX    float64 // the load's x in the window afterwards
+	}{
+		{"Not now", true, 4.2},
+		{"Discard", false, 4.2},
+		{"Restore", true, 1.25},
+	} {
+		dir := t.TempDir()
+		if err := storage.WriteRecovery(dir, kept, ""); err != nil {
+			t.Fatal(err)
+		}
+		w, _ := newRecoveringWindow(t, demoProject(t), dir)
+		w.offerRecovery()
+		_, _, buttons, _ := dialogWidgets(t, w)
+		buttonNamed(t, buttons, "Save as…")
+		test.Tap(buttonNamed(t, buttons, c.answer))
+		if got := w.Model().PointLoads[0].X; got != c.wantX {
+			t.Errorf("%s: the load is at %g m, want %g m", c.answer, got, c.wantX)
+		}
+		if c.answer == "Restore" && !w.dirty() {
+			t.Error("restored work shows as saved")
+		}
+		if r, _ := storage.FindRecovery(dir); (r != nil) != c.wantFile {
+			t.Errorf("%s: an autosave is there: %v, want %v", c.answer, r != nil, c.wantFile)
+		}
+		w.apply("move the load", func(m *fem.Model) error { m.PointLoads[0].X = 2; return nil })
+		w.autosave()
+		r, _ := storage.FindRecovery(dir)
+		if r == nil {
+			t.Errorf("%s: unsaved work after the answer is not autosaved", c.answer)
+		} else if want := map[bool]float64{true: 1.25, false: 2}[c.answer == "Not now"]; r.Project.Model.PointLoads[0].X != want {
+			t.Errorf("%s: the autosave has the load at %g m, want %g m", c.answer, r.Project.Model.PointLoads[0].X, want)
+		}
+	}
+}
+
+// A file that cannot be opened is named once in the message, with the
+// place in it; the message does not wrap storage's own.
+func TestOpenErrorNamesTheFileOnce(t *testing.T) {
+	w, _ := newTestWindow(t, demoProject(t))
+	path := filepath.Join(t.TempDir(), "broken.json")
+	p := demoProject(t)
+	p.Model.Segments[0].Material.Name = "bell\a"
+	if err := storage.Save(path, p); err != nil {
+		t.Fatal(err)
+	}
+	w.openPath(path)
+	_, _, _, labels := dialogWidgets(t, w)
+	var text string
+	for _, l := range labels {
+		text += l.Text + "\n"
+	}
+	if n := strings.Count(text, path); n != 1 {
+		t.Errorf("the message names the file %d times:\n%s", n, text)
+	}
+	if !strings.Contains(text, "member.segments[0].material.name") || strings.Contains(text, "cannot open") {
+		t.Errorf("the message does not name the place once, plainly:\n%s", text)
+	}
+}
+
+// With no file the window shows the demo under the demo's name; New makes
+// an untitled member.
+func TestDemoTitle(t *testing.T) {
+	t.Chdir(t.TempDir())
+	o, err := startProject("")
+	if err != nil || !o.demo {
+		t.Fatalf("startProject(\"\"): demo %v, %v", o.demo, err)
+	}
+	w, _ := newTestWindow(t, o.project)
+	w.startedOn(o)
+	if got := w.win.Title(); !strings.Contains(got, demoTitle) {
+		t.Errorf("title of the demo is %q", got)
+	}
+	w.newProject()
+	if got := w.win.Title(); !strings.Contains(got, "untitled") {
+		t.Errorf("title of a new member is %q", got)
 	}
 }

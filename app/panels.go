@@ -2,21 +2,17 @@ package app
 
 import (
 	"fmt"
-	"image/color"
 	"math"
 	"strconv"
 	"strings"
 
 	"fyne.io/fyne/v2"
-	fynecanvas "fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/container"
-	"fyne.io/fyne/v2/layout"
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
 	"stave/fem"
-	"stave/fem/analysis"
 	"stave/fem/units"
 	"stave/storage"
 )
@@ -48,29 +44,34 @@ type controls struct {
 	w            *Window
 	toolButtons  map[tool]*widget.Button
 	kindSelect   *widget.Select
-	properties   *fyne.Container
+	properties   *fyne.Container // the properties pane, rebuilt for each kind of item
 	panel        propertiesPanel
 	readout      *readout
-	checkList    *widget.List
-	checkDetail  *widget.Label
+	checks       *checksList
 	elements     *widget.Entry
 	elementsUsed *widget.Label // the element count actually solved
 	layerChecks  map[*bool]*widget.Check
 	order        *widget.Select
+	orders       []barOrder
 	unitSelect   *widget.Select
 	grid         *widget.Entry
 	magnify      *widget.Slider
 	magnifyText  *widget.Label
 }
 
-// build lays out the window's content.
+// build lays out the window's content: the tools on the left; above the
+// drawing the commands every item shares, below it the overlays, the mesh
+// and the deflection scale, each a bar that wraps when the window is
+// narrow; on the right the selected item's properties, the readout at the
+// mouse and the checks, each in a pane that scrolls; the status and the
+// caution at the foot.
 func (w *Window) build() {
 	c := &controls{w: w, toolButtons: map[tool]*widget.Button{}, layerChecks: map[*bool]*widget.Check{}}
 	w.ui = c
 	w.status = widget.NewLabel("")
 	w.status.Truncation = fyne.TextTruncateEllipsis
 
-	strip := container.NewVBox(widget.NewLabelWithStyle("Tools", fyne.TextAlignLeading, fyne.TextStyle{Bold: true}))
+	strip := container.NewVBox(heading("Tools"))
 	for _, t := range tools {
 		b := widget.NewButton(fmt.Sprintf("%s  (%c)", t.label, t.key-'a'+'A'), func() { w.setTool(t.tool) })
 		b.Alignment = widget.ButtonAlignLeading
@@ -91,121 +92,118 @@ func (w *Window) build() {
 	}
 	strip.Add(widget.NewLabel("Support kind"))
 	strip.Add(c.kindSelect)
-	strip.Add(widget.NewSeparator())
-	strip.Add(widget.NewButton("Undo", w.undo))
-	strip.Add(widget.NewButton("Redo", w.redo))
-	strip.Add(widget.NewButton("Delete", w.deleteSelected))
-	strip.Add(widget.NewButton("Fit view (F)", w.draw.fit))
 
-	c.properties = container.NewVBox()
+	c.properties = container.NewStack()
 	c.readout = newReadout()
-	// Rows are plain coloured text, half the height of labels, so the list
-	// shows several checks at once.
-	c.checkList = widget.NewList(
-		func() int { return len(w.checks) },
-		func() fyne.CanvasObject {
-			return container.New(layout.NewCustomPaddedLayout(3, 3, 6, 0), fynecanvas.NewText("", theme.Color(theme.ColorNameForeground)))
-		},
-		func(i widget.ListItemID, o fyne.CanvasObject) {
-			r := w.checks[i]
-			t := o.(*fyne.Container).Objects[0].(*fynecanvas.Text)
-			t.Text = r.Status + "  " + r.Name
-			t.Color = importanceColour(importance(r.Severity))
-			t.Refresh()
-		})
-	c.checkDetail = widget.NewLabel("")
-	c.checkDetail.Wrapping = fyne.TextWrapWord
-	c.checkList.OnSelected = func(i widget.ListItemID) {
-		if i < len(w.checks) {
-			w.selectCheck(w.checks[i])
-		}
-	}
-	c.checkList.OnUnselected = func(widget.ListItemID) { w.selectCheck(analysis.Finding{}) }
+	c.checks = newChecksList(w)
+	readoutAndChecks := container.NewVSplit(c.readout.pane(), c.checks.pane())
+	readoutAndChecks.SetOffset(0.5)
+	side := container.NewVSplit(c.properties, readoutAndChecks)
+	side.SetOffset(0.38)
 
-	readoutAndChecks := container.NewVSplit(
-		container.NewScroll(c.readout.grid), // its first line says what it shows: no heading, to save height
-		container.NewBorder(heading("Checks"), minHeight(90, container.NewVScroll(c.checkDetail)), nil, nil, c.checkList))
-	readoutAndChecks.SetOffset(0.4)
-	side := container.NewVSplit(
-		container.NewVScroll(c.properties),
-		readoutAndChecks)
-	side.SetOffset(0.3)
-
-	center := container.NewBorder(c.settingsBar(), c.layerBar(), nil, nil, w.draw)
+	below := newFlow(append(c.layerBar(), c.meshBar()...)...)
+	center := container.NewBorder(c.actionBar(), below, nil, nil, w.draw)
 	warning := widget.NewLabelWithStyle(caution, fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
 	warning.Importance = widget.WarningImportance
 	warning.Wrapping = fyne.TextWrapWord
 	bottom := container.NewVBox(widget.NewSeparator(), w.status, warning)
 
 	split := container.NewHSplit(center, side)
-	split.SetOffset(0.68)
-	w.win.SetContent(container.NewBorder(nil, bottom, container.NewVScroll(strip), nil, split))
-	w.win.SetMainMenu(w.mainMenu())
-	w.addShortcuts()
+	split.SetOffset(0.66)
+	content := container.NewBorder(nil, bottom, container.NewVScroll(strip), nil, split)
+	w.win.SetContent(content)
+	// Lay out at once: wrapped labels measure their height at the width
+	// they are given, and a window shown before that would take the
+	// height of every word on a line of its own as its minimum.
+	content.Resize(w.win.Canvas().Size().Max(fyne.NewSize(startWidth, startHeight)))
+	w.setMainMenu()
 	w.setTool(toolPick)
-}
-
-// importanceColour is the theme colour of text of importance i.
-func importanceColour(i widget.Importance) color.Color {
-	name := theme.ColorNameForeground
-	switch i {
-	case widget.DangerImportance:
-		name = theme.ColorNameError
-	case widget.WarningImportance:
-		name = theme.ColorNameWarning
-	case widget.SuccessImportance:
-		name = theme.ColorNameSuccess
-	case widget.LowImportance:
-		name = theme.ColorNameDisabled
-	}
-	return theme.Color(name)
-}
-
-// minHeight gives o at least h pixels of height.
-func minHeight(h float32, o fyne.CanvasObject) fyne.CanvasObject {
-	r := fynecanvas.NewRectangle(color.Transparent)
-	r.SetMinSize(fyne.NewSize(0, h))
-	return container.NewStack(r, o)
 }
 
 func heading(s string) *widget.Label {
 	return widget.NewLabelWithStyle(s, fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
 }
 
-// settingsBar holds the mesh and grid settings above the drawing (and makes the unit switch the layer bar shows).
-func (c *controls) settingsBar() fyne.CanvasObject {
+// actionBar holds the commands above the drawing, the snapping step and the units.
+func (c *controls) actionBar() fyne.CanvasObject {
 	w := c.w
-	c.elements = widget.NewEntry()
-	c.elements.OnSubmitted = func(s string) { w.setElements(s) }
-	finer := widget.NewButton("×2", func() { w.scaleElements(2) })
-	coarser := widget.NewButton("÷2", func() { w.scaleElements(0.5) })
-	c.order = widget.NewSelect([]string{"linear bar", "quadratic bar"}, func(s string) {
-		order := fem.LinearBar
-		if s == "quadratic bar" {
-			order = fem.QuadraticBar
-		}
-		if w.project.Model.Mesh.BarOrder != order && !(order == fem.LinearBar && w.project.Model.Mesh.BarOrder == 0) {
-			w.apply("use "+s+" elements", func(m *fem.Model) error { m.Mesh.BarOrder = order; return nil })
-		}
-	})
+	c.grid = widget.NewEntry()
+	c.grid.OnSubmitted = func(s string) { w.setGrid(s) }
+	c.showGrid()
 	c.unitSelect = widget.NewSelect([]string{units.SI.Name + " units", units.USCustomary.Name + " units"}, func(s string) {
 		if sys, ok := units.ByName(strings.TrimSuffix(s, " units")); ok && sys.Name != w.units.Name {
 			w.setUnits(sys)
 		}
 	})
 	c.unitSelect.SetSelected(w.units.Name + " units")
-	c.grid = widget.NewEntry()
-	c.grid.OnSubmitted = func(s string) { w.setGrid(s) }
-	c.showGrid()
-	c.elementsUsed = widget.NewLabel("")
-	return container.NewHBox(
-		widget.NewLabel("Elements requested"), container.NewGridWrap(fyne.NewSize(70, c.elements.MinSize().Height), c.elements), c.elementsUsed, finer, coarser,
-		c.order,
-		widget.NewLabel("Snap"), container.NewGridWrap(fyne.NewSize(100, c.grid.MinSize().Height), c.grid))
+	return newFlow(
+		widget.NewButtonWithIcon("Add…", theme.ContentAddIcon(), w.showAddForm),
+		widget.NewButtonWithIcon("Undo", theme.ContentUndoIcon(), w.undo),
+		widget.NewButtonWithIcon("Redo", theme.ContentRedoIcon(), w.redo),
+		widget.NewButtonWithIcon("Delete", theme.DeleteIcon(), w.deleteSelected),
+		widget.NewButtonWithIcon("Fit view", theme.ZoomFitIcon(), w.draw.fit),
+		container.NewBorder(nil, nil, widget.NewLabel("Snap"), nil, fixedWidth(110, c.grid)),
+		c.unitSelect)
 }
 
-// layerBar holds the overlay switches, the magnification and the units below the drawing.
-func (c *controls) layerBar() fyne.CanvasObject {
+// barOrder is one choice of the bar element, named as fem names its formulation.
+type barOrder struct {
+	order fem.ElementOrder
+	name  string
+}
+
+// barOrders lists the bar elements a mesh can use, and the beam element
+// every mesh uses, by the names of their formulations.
+func barOrders() (orders []barOrder, beam string) {
+	for _, o := range []fem.ElementOrder{fem.LinearBar, fem.QuadraticBar} {
+		m := fem.Model{Mesh: fem.MeshSettings{BarOrder: o}}
+		bar, b := m.Formulations()
+		orders, beam = append(orders, barOrder{o, bar.Name()}), b.Name()
+	}
+	return orders, beam
+}
+
+// meshBar makes the mesh settings shown below the drawing.
+func (c *controls) meshBar() []fyne.CanvasObject {
+	w := c.w
+	c.elements = widget.NewEntry()
+	c.elements.OnSubmitted = func(s string) { w.setElements(s) }
+	finer := widget.NewButton("Double", func() { w.scaleElements(2) })
+	coarser := widget.NewButton("Halve", func() { w.scaleElements(0.5) })
+	orders, beam := barOrders()
+	c.orders = orders
+	names := make([]string, len(orders))
+	for i, o := range orders {
+		names[i] = o.name
+	}
+	c.order = widget.NewSelect(names, func(s string) {
+		for _, o := range c.orders {
+			if o.name == s && o.order != orderOf(w.project.Model.Mesh) {
+				w.apply("use "+s+" elements for the axial part", func(m *fem.Model) error { m.Mesh.BarOrder = o.order; return nil })
+			}
+		}
+	})
+	c.elementsUsed = widget.NewLabel("")
+	return []fyne.CanvasObject{
+		container.NewHBox(widget.NewLabel("Elements"), fixedWidth(80, c.elements), c.elementsUsed, finer, coarser),
+		container.NewHBox(widget.NewLabel(beam+" · axial:"), c.order)}
+}
+
+// orderOf is the bar order of mesh settings, LinearBar when unset.
+func orderOf(ms fem.MeshSettings) fem.ElementOrder {
+	if ms.BarOrder == 0 {
+		return fem.LinearBar
+	}
+	return ms.BarOrder
+}
+
+// fixedWidth gives o a width of px and its own height.
+func fixedWidth(px float32, o fyne.CanvasObject) fyne.CanvasObject {
+	return container.NewGridWrap(fyne.NewSize(px, o.MinSize().Height), o)
+}
+
+// layerBar makes the overlay switches and the deflection scale shown below the drawing.
+func (c *controls) layerBar() []fyne.CanvasObject {
 	w := c.w
 	toggle := func(label string, on *bool) fyne.CanvasObject {
 		ch := widget.NewCheck(label, func(v bool) {
@@ -232,13 +230,12 @@ func (c *controls) layerBar() fyne.CanvasObject {
 	})
 	c.magnifyText = widget.NewLabel("")
 	c.showMagnification()
-	return container.NewVBox(
-		container.NewGridWithColumns(4,
-			toggle("Deflected shape", &o.DeformedShape), toggle("Axial force N", &o.AxialForce),
-			toggle("Shear force V", &o.ShearForce), toggle("Bending moment M", &o.BendingMoment),
-			toggle("Stress σ", &o.Stress), toggle("Nodes", &o.Nodes),
-			toggle("Exact vs FE gap", &o.ExactBand), toggle("Dimensions", &w.dimensions)),
-		container.NewBorder(nil, nil, widget.NewLabel("Deflection scale"), container.NewHBox(c.magnifyText, auto, c.unitSelect), c.magnify))
+	return []fyne.CanvasObject{
+		toggle("Deflected shape", &o.DeformedShape), toggle("Axial force N", &o.AxialForce),
+		toggle("Shear force V", &o.ShearForce), toggle("Bending moment M", &o.BendingMoment),
+		toggle("Stress σ", &o.Stress), toggle("Nodes", &o.Nodes),
+		toggle("Exact vs FE gap", &o.ExactBand), toggle("Dimensions", &w.dimensions),
+		container.NewHBox(widget.NewLabel("Deflection scale"), fixedWidth(150, c.magnify), c.magnifyText, auto)}
 }
 
 func (c *controls) showMagnification() {
@@ -279,10 +276,10 @@ func (c *controls) showMesh() {
 	w := c.w
 	ms := w.project.Model.Mesh
 	c.elements.SetText(strconv.Itoa(ms.Elements))
-	if ms.BarOrder == fem.QuadraticBar {
-		c.order.SetSelected("quadratic bar")
-	} else {
-		c.order.SetSelected("linear bar")
+	for _, o := range c.orders {
+		if o.order == orderOf(ms) {
+			c.order.SetSelected(o.name)
+		}
 	}
 	c.showElementsUsed()
 }
@@ -331,7 +328,7 @@ func (w *Window) setElements(text string) {
 		w.ui.showMesh()
 		return
 	}
-	w.apply(fmt.Sprintf("use %d elements", n), func(m *fem.Model) error { m.Mesh.Elements = n; return nil })
+	w.apply("use "+plural(n, "element"), func(m *fem.Model) error { m.Mesh.Elements = n; return nil })
 }
 
 func (w *Window) scaleElements(f float64) {
@@ -354,6 +351,14 @@ func (w *Window) setGrid(text string) {
 	}
 	w.ui.showGrid()
 	w.updateTitle()
+}
+
+// plural is "1 element", "2 elements".
+func plural(n int, noun string) string {
+	if n == 1 {
+		return "1 " + noun
+	}
+	return fmt.Sprintf("%d %ss", n, noun)
 }
 
 func errOr(err error, text string) string {
@@ -392,90 +397,6 @@ func roundStep(v float64) float64 {
 		}
 	}
 	return best
-}
-
-// hoverChanged updates the readout for the mouse position.
-func (w *Window) hoverChanged() {
-	w.ui.readout.show(w)
-}
-
-// selectCheck shows the full message of r and marks its place on the drawing.
-func (w *Window) selectCheck(f analysis.Finding) {
-	w.highlight = f.Span
-	if f.Name == "" {
-		text, handbook := "solving…", ""
-		if a := w.result; a != nil {
-			text, handbook = a.MeshText(w.units), a.HandbookText(w.units)
-		}
-		text += "\nClick a check to read it and see its place on the drawing."
-		if handbook != "" {
-			text += "\n\n" + handbook
-		}
-		w.ui.checkDetail.SetText(text)
-	} else {
-		w.ui.checkDetail.SetText(f.Sentence())
-	}
-	w.draw.Refresh()
-}
-
-// showResults refreshes everything that shows the newest analysis.
-func (c *controls) showResults() {
-	w := c.w
-	c.checkList.UnselectAll()
-	w.selectCheck(analysis.Finding{})
-	c.checkList.Refresh()
-	c.showMagnification()
-	c.showElementsUsed()
-	w.hoverChanged()
-}
-
-// readout shows every quantity at the mouse x, finite element beside exact,
-// in a text grid: compact rows and aligned columns.
-type readout struct {
-	grid *widget.TextGrid
-}
-
-func newReadout() *readout {
-	return &readout{grid: widget.NewTextGrid()}
-}
-
-// readoutLine lays out one line of the readout in fixed columns narrow
-// enough for the side panel: the unit is written once, after both values.
-func readoutLine(name, fe, exact, unit string) string {
-	return fmt.Sprintf("%-14s %9s %9s %s", name, fe, exact, unit)
-}
-
-// shortNumber is units.FormatNumber with the exponent's zeros dropped
-// ("-3.208e-4"), so every value fits nine characters.
-func shortNumber(v float64) string {
-	s := units.FormatNumber(v)
-	return strings.NewReplacer("e-0", "e-", "e+0", "e", "e+", "e").Replace(s)
-}
-
-func (r *readout) show(w *Window) {
-	d := w.draw
-	a := w.result
-	m := &w.project.Model
-	if !d.hovering || a == nil || a.Solution == nil || d.hoverX < 0 || d.hoverX > m.Length() {
-		r.grid.SetText("At the mouse\n\nMove the mouse over the member to read\nevery result at that point, finite\nelement (FE) beside exact.")
-		return
-	}
-	x := d.hoverX
-	fe := a.Solution.At(x, fem.Right)
-	lines := []string{readoutLine("at "+w.units.Format(units.Position, x), "FE", "exact", "")}
-	var ex fem.Fields
-	if a.Exact != nil {
-		ex = a.Exact.At(x, fem.Right)
-	}
-	for _, q := range fem.Quantities() {
-		info := q.Info()
-		exact := "—"
-		if a.Exact != nil {
-			exact = shortNumber(w.units.ToDisplay(info.Unit, q.Of(&ex)))
-		}
-		lines = append(lines, readoutLine(info.Label, shortNumber(w.units.ToDisplay(info.Unit, q.Of(&fe))), exact, w.units.Unit(info.Unit).Symbol))
-	}
-	r.grid.SetText(strings.Join(lines, "\n"))
 }
 
 // storageUnits names s the way project files do.

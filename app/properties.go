@@ -7,6 +7,7 @@ import (
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/layout"
+	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
@@ -155,6 +156,7 @@ func (c *controls) showProperties() {
 	applyAll := func() {
 		if err := w.applyFields(title, r, fields, entries, shown); err != nil {
 			message.SetText(err.Error())
+			message.Show()
 			return
 		}
 		c.panel.key = "" // show the applied values as the panel formats them
@@ -173,31 +175,68 @@ func (c *controls) showProperties() {
 		form.Add(label)
 		form.Add(e)
 	}
-	objects := []fyne.CanvasObject{heading("Properties — " + title)}
-	objects = append(objects, c.choices(r)...)
+	objects := c.choices(r)
 	objects = append(objects, form)
 	if len(fields) > 0 {
-		objects = append(objects, container.NewHBox(widget.NewButton("Apply", applyAll),
-			widget.NewLabel("or Enter; e.g. 12 kN")))
+		hint := widget.NewLabel(w.typingHint(fields))
+		hint.Wrapping = fyne.TextWrapWord
+		hint.Importance = widget.LowImportance
+		objects = append(objects, hint)
 	}
 	if r.Kind == canvas.Segment {
-		name := widget.NewEntry()
-		name.SetText(m.Segments[r.Index].Material.Name)
-		name.OnSubmitted = func(s string) {
-			i := r.Index
-			w.apply("rename the material of segment "+fmt.Sprint(i+1), func(m *fem.Model) error {
-				m.Segments[i].Material.Name = s
-				return nil
-			})
-		}
-		objects = append(objects, container.NewBorder(nil, nil, widget.NewLabel("Material name"), nil, name))
+		objects = append(objects, c.materialName(r.Index, message))
+	}
+	// The buttons stay in view below the fields, which scroll.
+	var buttons []fyne.CanvasObject
+	if len(fields) > 0 {
+		apply := widget.NewButton("Apply", applyAll)
+		apply.Importance = widget.HighImportance
+		buttons = append(buttons, apply)
 	}
 	if r.Kind != canvas.None {
-		objects = append(objects, widget.NewButton("Delete "+describe(r), w.deleteSelected))
+		buttons = append(buttons, widget.NewButtonWithIcon("Delete "+describe(r), theme.DeleteIcon(), w.deleteSelected))
 	}
-	objects = append(objects, message)
-	c.properties.Objects = objects
+	message.Hide() // until there is something to say
+	foot := container.NewVBox(message, newFlow(buttons...))
+	c.properties.Objects = []fyne.CanvasObject{container.NewBorder(heading("Properties — "+title), foot, nil, nil,
+		container.NewVScroll(container.NewVBox(objects...)))}
 	c.properties.Refresh()
+}
+
+// typingHint says how typed numbers are read, with an example in the
+// display units of the panel's first load, or else of its first field.
+func (w *Window) typingHint(fields []field) string {
+	q := fields[0].q
+	for _, f := range fields {
+		if f.q == units.Force || f.q == units.Moment || f.q == units.LineLoad {
+			q = f.q
+			break
+		}
+	}
+	return fmt.Sprintf("Enter or Apply applies. A number alone is in the unit shown; a number with a unit is converted: e.g. 12 %s.", w.units.Unit(q).Symbol)
+}
+
+// materialName is the entry of a segment's material name, which must be
+// a label a file can hold (storage's rules).
+func (c *controls) materialName(i int, message *widget.Label) fyne.CanvasObject {
+	w := c.w
+	name := widget.NewEntry()
+	name.SetText(w.project.Model.Segments[i].Material.Name)
+	name.OnSubmitted = func(s string) {
+		p := cloneProject(w.project)
+		p.Model.Segments[i].Material.Name = s
+		if problems := textProblems(&p, fmt.Sprintf("member.segments[%d].material.name", i)); len(problems) > 0 {
+			message.SetText("Material name: " + problems[0].Message)
+			message.Show()
+			return
+		}
+		message.Hide()
+		w.apply(fmt.Sprintf("rename the material of segment %d", i+1), func(m *fem.Model) error {
+			m.Segments[i].Material.Name = s
+			return nil
+		})
+	}
+	return container.NewBorder(nil, nil, widget.NewLabel("Material name"), nil, name)
 }
 
 // choices are the non-numeric settings of the item r, applied as soon as changed.
@@ -269,7 +308,14 @@ func (w *Window) applyFields(title string, r canvas.Ref, fields []field, entries
 	if !anyChanged {
 		return nil
 	}
-	return w.apply("edit "+strings.ToLower(title[:1])+title[1:], func(m *fem.Model) error {
+	var names []string
+	for k, f := range fields {
+		if changed[k] {
+			names = append(names, strings.ToLower(f.label[:1])+f.label[1:])
+		}
+	}
+	name := "edit " + strings.ToLower(title[:1]) + title[1:] + ": " + strings.Join(names, ", ")
+	return w.apply(name, func(m *fem.Model) error {
 		for k, f := range fields {
 			if !changed[k] {
 				continue

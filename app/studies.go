@@ -88,7 +88,7 @@ func (w *Window) runConvergence() {
 				return
 			}
 			w.convergence = &convergenceStudy{model: m, table: t}
-			w.win.SetMainMenu(w.mainMenu()) // enables the chart export
+			w.setMainMenu() // enables the chart export
 			w.setStatus("convergence study done: %d meshes", len(t.Rows))
 			w.showConvergence()
 		}, err

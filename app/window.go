@@ -5,6 +5,7 @@ import (
 	"math"
 	"path/filepath"
 	"reflect"
+	"strconv"
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/driver/desktop"
@@ -22,6 +23,19 @@ import (
 // caution is shown in the status line at all times.
 const caution = fem.Caution
 
+// The size a window opens at: it fits a screen of 1280 × 720 pixels, the
+// smallest the layout is made for; a larger screen can maximize it.
+const (
+	startWidth  = 1280
+	startHeight = 720
+)
+
+// Titles of projects that have no file.
+const (
+	untitled  = "untitled"
+	demoTitle = "Demo member (invented scenario)"
+)
+
 // Window is one sketch-and-solve window on one project.
 type Window struct {
 	app fyne.App
@@ -30,6 +44,9 @@ type Window struct {
 	project storage.Project // the live project; Model is replaced, never changed in place
 	saved   storage.Project // the project as last opened or saved, to tell unsaved changes
 	path    string          // file of the project; "" until saved
+	// name is the title of a project with no file: "untitled", or what
+	// the window was started on (the demo).
+	name string
 
 	hist     history
 	solver   *solver
@@ -63,6 +80,12 @@ type Window struct {
 
 	recoveryDir  string
 	stopAutosave func()
+	// autosaved reports that the recovery folder holds this window's
+	// unsaved work (and not a previous run's, still to be offered).
+	autosaved bool
+	// earlierKept reports that the user kept a previous run's autosave for
+	// the next start: this window does not autosave over it.
+	earlierKept bool
 }
 
 // options are the parts of a window that tests replace.
@@ -79,7 +102,7 @@ func NewWindow(a fyne.App, p *storage.Project, path string) *Window {
 }
 
 func newWindow(a fyne.App, p *storage.Project, path string, o options) *Window {
-	w := &Window{app: a, post: o.post, recoveryDir: o.recoveryDir, path: path, kind: fem.Pinned}
+	w := &Window{app: a, post: o.post, recoveryDir: o.recoveryDir, path: path, name: untitled, kind: fem.Pinned}
 	if p == nil {
 		p = &storage.Project{View: storage.DefaultView()}
 	}
@@ -92,7 +115,7 @@ func newWindow(a fyne.App, p *storage.Project, path string, o options) *Window {
 	w.draw = newDrawing(w)
 	w.solver = newSolver(analysisStages, w.post, w.deliver)
 	w.build()
-	w.win.Resize(fyne.NewSize(1280, 800))
+	w.win.Resize(fyne.NewSize(startWidth, startHeight))
 	w.win.SetCloseIntercept(w.closeRequested)
 	w.draw.fit()
 	w.setModel(w.project.Model)
@@ -122,7 +145,7 @@ func (w *Window) dirty() bool {
 }
 
 func (w *Window) updateTitle() {
-	name := "untitled"
+	name := w.name
 	if w.path != "" {
 		name = filepath.Base(w.path)
 	}
@@ -163,8 +186,18 @@ func (w *Window) apply(name string, change func(m *fem.Model) error) error {
 	before := w.project.Model
 	w.setModel(cand)
 	w.hist.push(edit{name: name, before: before, after: cand})
+	w.refitIfLengthChanged(before)
 	w.setStatus("%s", name)
 	return nil
+}
+
+// refitIfLengthChanged fits the view to the member when its length is no
+// longer what it was in before: a member much longer or shorter than the
+// view would run off the drawing or fill a corner of it.
+func (w *Window) refitIfLengthChanged(before fem.Model) {
+	if before.Length() != w.project.Model.Length() {
+		w.draw.fit()
+	}
 }
 
 // setModel makes m current and sends it to the solver; m must not be changed
@@ -197,6 +230,7 @@ func (w *Window) modelChanged() {
 func (w *Window) undo() {
 	if e, ok := w.hist.undo(); ok {
 		w.setModel(e.before)
+		w.refitIfLengthChanged(e.after)
 		w.setStatus("undid %s", e.name)
 	} else {
 		w.setStatus("nothing to undo")
@@ -206,6 +240,7 @@ func (w *Window) undo() {
 func (w *Window) redo() {
 	if e, ok := w.hist.redo(); ok {
 		w.setModel(e.after)
+		w.refitIfLengthChanged(e.before)
 		w.setStatus("redid %s", e.name)
 	} else {
 		w.setStatus("nothing to redo")
@@ -238,9 +273,7 @@ func (w *Window) keepSelectionValid() {
 
 func (w *Window) selectItem(r canvas.Ref) {
 	if r.Kind == canvas.CheckMark {
-		if r.Index >= 0 && r.Index < len(w.checks) {
-			w.ui.checkList.Select(r.Index) // shows the check and highlights its place
-		}
+		w.selectCheck(r.Index) // shows the check and highlights its place
 		return
 	}
 	w.selected = r
@@ -267,6 +300,9 @@ func (w *Window) deliver(a result) {
 	}
 	w.result = &a
 	w.checks = a.Findings()
+	if len(a.Model.Segments) == 0 {
+		w.checks = nil // a new sketch fails nothing: the checks panel says what to do first
+	}
 	w.draw.Refresh() // first: the results panel reads the scene's magnification
 	w.ui.showResults()
 }
@@ -302,6 +338,23 @@ func (w *Window) gridStep(metresPerPixel float64) float64 {
 	return math.Pow(10, math.Floor(math.Log10(metresPerPixel*10)))
 }
 
+// position shows a position along the member in display units, in plain
+// decimals to the precision of the view (one pixel), so a position near the
+// left end reads 0.001 m rather than 6.798e-04 m.
+func (w *Window) position(x float64) string {
+	u := w.units.Unit(units.Position)
+	step := w.draw.metresPerPixel() / u.ToSI
+	decimals := 0
+	if step > 0 {
+		decimals = max(0, min(6, int(math.Ceil(-math.Log10(step)))))
+	}
+	v := x / u.ToSI
+	if math.Abs(v) < 0.5*math.Pow(10, -float64(decimals)) {
+		v = 0 // no "-0.00 m"
+	}
+	return strconv.FormatFloat(v, 'f', decimals, 64) + " " + u.Symbol
+}
+
 // click applies the current tool at p.
 func (w *Window) click(p fyne.Position, double bool) {
 	hit := w.draw.hit(p)
@@ -317,7 +370,7 @@ func (w *Window) click(p fyne.Position, double bool) {
 	case toolMember:
 		w.setStatus("drag along the drawing to give the member its length, or type it under Properties")
 	case toolSplit:
-		w.apply(fmt.Sprintf("split the member at x = %s", w.units.Format(units.Position, x)),
+		w.apply(fmt.Sprintf("split the member at x = %s", w.position(x)),
 			func(m *fem.Model) error { return splitSegment(m, x) })
 	case toolVertex:
 		if hit.Kind != canvas.DistributedLoad && hit.Kind != canvas.LoadVertex {
@@ -338,7 +391,7 @@ func (w *Window) click(p fyne.Position, double bool) {
 
 // place puts a support or point load at x and selects it.
 func (w *Window) place(x float64) {
-	at := w.units.Format(units.Position, x)
+	at := w.position(x)
 	var err error
 	switch w.tool {
 	case toolSupport:
@@ -494,8 +547,7 @@ func (w *Window) endDrag(g *gesture) {
 	name := "drag"
 	switch g.kind {
 	case gestureMember:
-		name = "set the member length to " + w.units.Format(units.Position, w.project.Model.Length())
-		w.draw.fit()
+		name = "set the member length to " + w.position(w.project.Model.Length())
 	case gestureLineLoad:
 		name = "add a distributed load"
 		w.selectItem(canvas.Ref{Kind: canvas.DistributedLoad, Index: len(w.project.Model.DistributedLoad) - 1})
@@ -503,6 +555,7 @@ func (w *Window) endDrag(g *gesture) {
 		name = "move " + describe(g.target)
 	}
 	w.hist.push(edit{name: name, before: g.before, after: w.project.Model})
+	w.refitIfLengthChanged(g.before)
 	w.setStatus("%s", name)
 	w.updateTitle()
 }

@@ -1,0 +1,299 @@
+package app
+
+import (
+	"errors"
+	"fmt"
+	"reflect"
+	"strings"
+	"testing"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/dialog"
+	"fyne.io/fyne/v2/driver/desktop"
+	"fyne.io/fyne/v2/test"
+
+	"stave/canvas"
+	"stave/fem"
+)
+
+// The shortcuts the desktop driver makes of these keys (fyne
+// internal/driver/glfw, window.triggersShortcut): Ctrl+Z and Ctrl+Y become
+// Fyne's own undo and redo shortcuts, any other Ctrl combination a custom one.
+var (
+	pressCtrlZ      fyne.Shortcut = &fyne.ShortcutUndo{}
+	pressCtrlY      fyne.Shortcut = &fyne.ShortcutRedo{}
+	pressCtrlShiftZ fyne.Shortcut = &desktop.CustomShortcut{KeyName: fyne.KeyZ, Modifier: fyne.KeyModifierShortcutDefault | fyne.KeyModifierShift}
+)
+
+// press delivers shortcut s the way the desktop driver does: to a main menu
+// item with the same shortcut if there is one, else to the focused widget
+// if it takes shortcuts, else to the canvas.
+func press(t *testing.T, w *Window, s fyne.Shortcut) {
+	t.Helper()
+	if it := menuItemFor(w.win.MainMenu(), s); it != nil {
+		it.Action()
+		return
+	}
+	c := w.win.Canvas()
+	if f, ok := c.Focused().(fyne.Shortcutable); ok {
+		f.TypedShortcut(s)
+		return
+	}
+	sc, ok := c.(fyne.Shortcutable)
+	if !ok {
+		t.Fatal("the test canvas takes no shortcuts")
+	}
+	sc.TypedShortcut(s)
+}
+
+// menuItemFor finds the item of m whose shortcut is s.
+func menuItemFor(m *fyne.MainMenu, s fyne.Shortcut) *fyne.MenuItem {
+	var find func(items []*fyne.MenuItem) *fyne.MenuItem
+	find = func(items []*fyne.MenuItem) *fyne.MenuItem {
+		for _, it := range items {
+			if it.Shortcut != nil && it.Shortcut.ShortcutName() == s.ShortcutName() && it.Action != nil {
+				return it
+			}
+			if it.ChildMenu != nil {
+				if found := find(it.ChildMenu.Items); found != nil {
+					return found
+				}
+			}
+		}
+		return nil
+	}
+	if m == nil {
+		return nil
+	}
+	for _, menu := range m.Items {
+		if it := find(menu.Items); it != nil {
+			return it
+		}
+	}
+	return nil
+}
+
+// typeKey and typeRune deliver a key pressed alone while no widget has the focus.
+func typeKey(w *Window, k fyne.KeyName) { w.win.Canvas().OnTypedKey()(&fyne.KeyEvent{Name: k}) }
+func typeRune(w *Window, r rune)        { w.win.Canvas().OnTypedRune()(r) }
+
+// Ctrl+Z undoes, Ctrl+Y and Ctrl+Shift+Z redo. Ctrl+Z and Ctrl+Y are on
+// the Edit menu, so they work with an entry focused too; Ctrl+Shift+Z is
+// the canvas's alone, and an entry in focus keeps it.
+func TestUndoRedoKeys(t *testing.T) {
+	for _, c := range []struct {
+		name       string
+		focus      bool
+		undo, redo fyne.Shortcut
+	}{
+		{"Ctrl+Z, Ctrl+Y", false, pressCtrlZ, pressCtrlY},
+		{"Ctrl+Z, Ctrl+Shift+Z", false, pressCtrlZ, pressCtrlShiftZ},
+		{"Ctrl+Z, Ctrl+Y in an entry", true, pressCtrlZ, pressCtrlY},
+	} {
+		w, _ := newTestWindow(t, demoProject(t))
+		n := len(w.Model().Supports)
+		w.selectItem(canvas.Ref{Kind: canvas.Support, Index: 1})
+		typeKey(w, fyne.KeyDelete)
+		if got := len(w.Model().Supports); got != n-1 {
+			t.Fatalf("Delete left %d supports, want %d", got, n-1)
+		}
+		if c.focus {
+			w.win.Canvas().Focus(w.ui.elements)
+		}
+		press(t, w, c.undo)
+		if got := len(w.Model().Supports); got != n {
+			t.Errorf("%s: undo after Delete left %d supports, want %d", c.name, got, n)
+		}
+		press(t, w, c.redo)
+		if got := len(w.Model().Supports); got != n-1 {
+			t.Errorf("%s: redo after undo left %d supports, want %d", c.name, got, n-1)
+		}
+	}
+}
+
+// The menus show the keys of their commands.
+func TestMenusShowKeys(t *testing.T) {
+	w, _ := newTestWindow(t, demoProject(t))
+	for _, c := range []struct {
+		key  fyne.Shortcut
+		want string
+	}{
+		{pressCtrlZ, "Undo"},
+		{pressCtrlY, "Redo"},
+		{&desktop.CustomShortcut{KeyName: fyne.KeyS, Modifier: fyne.KeyModifierShortcutDefault}, "Save"},
+		{&desktop.CustomShortcut{KeyName: fyne.KeyN, Modifier: fyne.KeyModifierShortcutDefault}, "New"},
+		{&desktop.CustomShortcut{KeyName: fyne.KeyQ, Modifier: fyne.KeyModifierShortcutDefault}, "Quit"},
+		{&desktop.CustomShortcut{KeyName: fyne.KeyDelete}, "Delete selected"},
+		{&desktop.CustomShortcut{KeyName: fyne.KeyR}, "Support"},
+		{&desktop.CustomShortcut{KeyName: fyne.KeyA}, "Add a support, load or break…"},
+	} {
+		it := menuItemFor(w.win.MainMenu(), c.key)
+		if it == nil || it.Label != c.want {
+			t.Errorf("the menu item with the key %s is %v, want %q", c.key.ShortcutName(), it, c.want)
+		}
+	}
+}
+
+// state is what a key must not change while a dialog is open.
+type state struct {
+	model    fem.Model
+	selected canvas.Ref
+	tool     tool
+	undo     int
+}
+
+func stateOf(w *Window) state {
+	return state{w.Model(), w.selected, w.tool, len(w.hist.done)}
+}
+
+func (s state) String() string {
+	m := s.model
+	return fmt.Sprintf("%d supports, %d point loads, %d line loads, selected %v, tool %d, %d undo steps",
+		len(m.Supports), len(m.PointLoads), len(m.DistributedLoad), s.selected, s.tool, s.undo)
+}
+
+// No key reaches the model, the selection or the tool while a dialog is open.
+func TestKeysDoNothingBehindDialogs(t *testing.T) {
+	dialogs := []struct {
+		name string
+		show func(w *Window)
+	}{
+		{"check limits", func(w *Window) { w.showCheckLimits() }},
+		{"an error", func(w *Window) { dialog.ShowError(errors.New("something went wrong"), w.win) }},
+		{"unsaved changes", func(w *Window) {
+			w.apply("move the load", func(m *fem.Model) error { m.PointLoads[0].X += 0.5; return nil })
+			w.newProject()
+		}},
+		{"the Add form", func(w *Window) { w.showAddForm() }},
+		{"the notes", func(w *Window) { w.showNotesForm() }},
+	}
+	keys := []struct {
+		name  string
+		press func(t *testing.T, w *Window)
+	}{
+		{"Delete", func(_ *testing.T, w *Window) { typeKey(w, fyne.KeyDelete) }},
+		{"Backspace", func(_ *testing.T, w *Window) { typeKey(w, fyne.KeyBackspace) }},
+		{"Escape", func(_ *testing.T, w *Window) { typeKey(w, fyne.KeyEscape) }},
+		{"R", func(_ *testing.T, w *Window) { typeRune(w, 'r') }},
+		{"A", func(_ *testing.T, w *Window) { typeRune(w, 'a') }},
+		{"Ctrl+Z", func(t *testing.T, w *Window) { press(t, w, pressCtrlZ) }},
+		{"Ctrl+Y", func(t *testing.T, w *Window) { press(t, w, pressCtrlY) }},
+		{"Ctrl+Shift+Z", func(t *testing.T, w *Window) { press(t, w, pressCtrlShiftZ) }},
+	}
+	for _, d := range dialogs {
+		w, _ := newTestWindow(t, demoProject(t))
+		w.selectItem(canvas.Ref{Kind: canvas.PointLoad, Index: 0})
+		w.setTool(toolMoment)
+		w.win.Canvas().Unfocus()
+		d.show(w)
+		if w.win.Canvas().Overlays().Top() == nil {
+			t.Fatalf("%s: no dialog showing", d.name)
+		}
+		w.win.Canvas().Unfocus() // keys go to the window, as when the dialog has no entry in focus
+		before := stateOf(w)
+		overlays := len(w.win.Canvas().Overlays().List())
+		for _, k := range keys {
+			k.press(t, w)
+			if after := stateOf(w); !reflect.DeepEqual(after, before) {
+				t.Errorf("with %s showing, %s changed the window: %v, was %v", d.name, k.name, after, before)
+				before = after
+			}
+		}
+		if got := len(w.win.Canvas().Overlays().List()); got != overlays {
+			t.Errorf("with %s showing, the keys opened or closed dialogs: %d, was %d", d.name, got, overlays)
+		}
+	}
+	// With the dialogs closed the same keys work: the test can tell.
+	w, _ := newTestWindow(t, demoProject(t))
+	w.selectItem(canvas.Ref{Kind: canvas.PointLoad, Index: 0})
+	typeKey(w, fyne.KeyDelete)
+	if len(w.Model().PointLoads) != len(demoProject(t).Model.PointLoads)-1 {
+		t.Error("Delete with no dialog open did not delete the selected load")
+	}
+}
+
+// Escape on the unsaved-changes question changes nothing; Cancel goes back
+// to the work with nothing lost.
+func TestEscapeOnUnsavedChanges(t *testing.T) {
+	w, _ := newTestWindow(t, demoProject(t))
+	w.apply("move the load", func(m *fem.Model) error { m.PointLoads[0].X += 0.5; return nil })
+	w.selectItem(canvas.Ref{Kind: canvas.Support, Index: 0})
+	w.newProject()
+	typeKey(w, fyne.KeyEscape)
+	if w.selected.Kind != canvas.Support {
+		t.Errorf("Escape on the unsaved-changes dialog changed the selection to %v", w.selected)
+	}
+	_, _, buttons, _ := dialogWidgets(t, w)
+	test.Tap(buttonNamed(t, buttons, "Cancel"))
+	if open := w.win.Canvas().Overlays().Top() != nil; open || !w.dirty() || w.selected.Kind != canvas.Support {
+		t.Errorf("Cancel: dialog open %v, unsaved changes %v, selection %v", open, w.dirty(), w.selected)
+	}
+}
+
+// The plain keys the menus show act when no widget has the focus, and
+// type into an entry that has it.
+func TestPlainKeys(t *testing.T) {
+	for _, c := range []struct {
+		key  rune
+		want func(w *Window, fitted float64) bool
+	}{
+		{'r', func(w *Window, _ float64) bool { return w.tool == toolSupport }},
+		{'L', func(w *Window, _ float64) bool { return w.tool == toolLineLoad }},
+		{'a', func(w *Window, _ float64) bool { return w.win.Canvas().Overlays().Top() != nil }},
+		{'+', func(w *Window, fitted float64) bool { return w.draw.view.Scale > fitted }},
+		{'=', func(w *Window, fitted float64) bool { return w.draw.view.Scale > fitted }},
+		{'-', func(w *Window, fitted float64) bool { return w.draw.view.Scale < fitted }},
+	} {
+		w, _ := newTestWindow(t, demoProject(t))
+		fitted := w.draw.view.Scale
+		typeRune(w, c.key)
+		if !c.want(w, fitted) {
+			t.Errorf("%c did not do what the menus say", c.key)
+		}
+	}
+	w, _ := newTestWindow(t, demoProject(t))
+	w.zoomCentre(3)
+	typeRune(w, 'f')
+	if w.draw.view != w.draw.fittedView() {
+		t.Error("F did not fit the member")
+	}
+	e := w.ui.elements
+	w.win.Canvas().Focus(e)
+	test.Type(e, "l")
+	if w.tool != toolPick || !strings.Contains(e.Text, "l") {
+		t.Errorf("typing L into the element count picked tool %d; the entry reads %q", w.tool, e.Text)
+	}
+}
+
+// A wheel notch zooms by zoomStep, a fast spin by no more, and zooming
+// stops at its bounds.
+func TestWheelZoom(t *testing.T) {
+	w, _ := newTestWindow(t, demoProject(t))
+	d := w.draw
+	start := d.view.Scale
+	scroll := func(dy float32) {
+		d.Scrolled(&fyne.ScrollEvent{PointEvent: fyne.PointEvent{Position: fyne.NewPos(d.view.Width/2, 100)}, Scrolled: fyne.NewDelta(0, dy)})
+	}
+	for range 6 {
+		scroll(wheelNotch)
+	}
+	if got, want := d.view.Scale/start, 1.18*1.18*1.18*1.18*1.18*1.18; got > want*1.0001 || got < want*0.9999 {
+		t.Errorf("six notches zoomed %.3g×, want %.3g×", got, want)
+	}
+	scroll(40 * wheelNotch) // a spin reported as one event
+	if got := d.view.Scale / start; got > 1.18*1.18*1.18*1.18*1.18*1.18*1.18*1.0001 {
+		t.Errorf("a fast spin zoomed to %.3g×, more than one notch further", got)
+	}
+	for range 1000 {
+		scroll(wheelNotch)
+	}
+	if got := d.view.Scale / d.fittedView().Scale; got > zoomInMost*1.0001 {
+		t.Errorf("zoomed in to %.3g× the fitted view, beyond %g×", got, zoomInMost)
+	}
+	for range 2000 {
+		scroll(-wheelNotch)
+	}
+	if got := d.view.Scale / d.fittedView().Scale; got < zoomOutMost*0.9999 {
+		t.Errorf("zoomed out to %.3g× the fitted view, beyond %g×", got, zoomOutMost)
+	}
+}

@@ -1,0 +1,259 @@
+package app
+
+import (
+	"strings"
+
+	"fyne.io/fyne/v2"
+	fynecanvas "fyne.io/fyne/v2/canvas"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/layout"
+	"fyne.io/fyne/v2/theme"
+	"fyne.io/fyne/v2/widget"
+
+	"stave/fem"
+	"stave/fem/units"
+)
+
+// readout shows every quantity at the mouse x in a table: the quantity,
+// its finite element and exact values in aligned columns, and the unit.
+type readout struct {
+	at    *widget.Label
+	table *widget.Table
+	rows  [][readoutColumns]string
+}
+
+// Columns of the readout table.
+const (
+	columnQuantity = iota
+	columnFE
+	columnExact
+	columnUnit
+	readoutColumns
+)
+
+var readoutHeadings = [readoutColumns]string{"", "FE", "exact", "unit"}
+
+func newReadout() *readout {
+	r := &readout{at: widget.NewLabel("")}
+	r.at.Wrapping = fyne.TextWrapWord
+	size := readoutTextSize()
+	cell := func() fyne.CanvasObject {
+		t := fynecanvas.NewText("", theme.Color(theme.ColorNameForeground))
+		t.TextSize = size
+		return container.New(layout.NewCustomPaddedLayout(0, 0, 4, 4), t)
+	}
+	r.table = widget.NewTable(
+		func() (int, int) { return len(r.rows), readoutColumns },
+		cell,
+		func(id widget.TableCellID, o fyne.CanvasObject) {
+			setCell(o, r.rows[id.Row][id.Col], id.Col == columnFE || id.Col == columnExact, false)
+		})
+	r.table.ShowHeaderRow = true
+	r.table.CreateHeader = cell
+	r.table.UpdateHeader = func(id widget.TableCellID, o fyne.CanvasObject) {
+		if id.Col >= 0 {
+			setCell(o, readoutHeadings[id.Col], id.Col == columnFE || id.Col == columnExact, true)
+		}
+	}
+	widths := [readoutColumns]float32{}
+	for _, q := range fem.Quantities() {
+		widths[columnQuantity] = max(widths[columnQuantity], fyne.MeasureText(q.Info().Label, size, fyne.TextStyle{}).Width)
+		for _, s := range units.Systems() {
+			widths[columnUnit] = max(widths[columnUnit], fyne.MeasureText(s.Unit(q.Info().Unit).Symbol, size, fyne.TextStyle{}).Width)
+		}
+	}
+	number := fyne.MeasureText("-8.888e-88", size, fyne.TextStyle{}).Width
+	widths[columnFE], widths[columnExact] = number, number
+	for i, w := range widths {
+		r.table.SetColumnWidth(i, w+12)
+	}
+	return r
+}
+
+// readoutTextSize is a little smaller than labels, so the table shows
+// every quantity in a small window.
+func readoutTextSize() float32 { return theme.TextSize() - 1 }
+
+// setCell shows text in a table cell, numbers aligned on the right.
+func setCell(o fyne.CanvasObject, text string, number, bold bool) {
+	t := o.(*fyne.Container).Objects[0].(*fynecanvas.Text)
+	t.Text = text
+	t.TextStyle.Bold = bold
+	t.Alignment = fyne.TextAlignLeading
+	if number {
+		t.Alignment = fyne.TextAlignTrailing
+	}
+	t.Refresh()
+}
+
+// pane is the readout with its line on where it reads.
+func (r *readout) pane() fyne.CanvasObject {
+	return container.NewBorder(r.at, nil, nil, nil, r.table)
+}
+
+// clear shows the quantities with no values and says how to get them.
+func (r *readout) clear(u units.System) {
+	r.at.SetText("Move the mouse over the member to read every result there: finite element (FE) beside exact.")
+	r.fill(u, func(fem.Quantity) (string, string) { return "", "" })
+}
+
+// fill sets one row per quantity with values from value, in units u.
+func (r *readout) fill(u units.System, value func(fem.Quantity) (fe, exact string)) {
+	r.rows = r.rows[:0]
+	for _, q := range fem.Quantities() {
+		fe, exact := value(q)
+		r.rows = append(r.rows, [readoutColumns]string{q.Info().Label, fe, exact, u.Unit(q.Info().Unit).Symbol})
+	}
+	r.table.Refresh()
+}
+
+// shortNumber is units.FormatNumber with the exponent's zeros dropped
+// ("-3.208e-4"), so every value fits the column.
+func shortNumber(v float64) string {
+	s := units.FormatNumber(v)
+	return strings.NewReplacer("e-0", "e-", "e+0", "e", "e+", "e").Replace(s)
+}
+
+func (r *readout) show(w *Window) {
+	d := w.draw
+	a := w.result
+	m := &w.project.Model
+	if !d.hovering || a == nil || a.Solution == nil || d.hoverX < 0 || d.hoverX > m.Length() {
+		r.clear(w.units)
+		return
+	}
+	x := d.hoverX
+	r.at.SetText("At x = " + w.position(x) + " (under the mouse)")
+	fe := a.Solution.At(x, fem.Right)
+	var ex fem.Fields
+	if a.Exact != nil {
+		ex = a.Exact.At(x, fem.Right)
+	}
+	r.fill(w.units, func(q fem.Quantity) (string, string) {
+		unit := q.Info().Unit
+		exact := "—"
+		if a.Exact != nil {
+			exact = shortNumber(w.units.ToDisplay(unit, q.Of(&ex)))
+		}
+		return shortNumber(w.units.ToDisplay(unit, q.Of(&fe))), exact
+	})
+}
+
+// hoverChanged updates the readout for the mouse position.
+func (w *Window) hoverChanged() {
+	w.ui.readout.show(w)
+}
+
+// checksList shows the findings of the newest analysis, one wrapped line
+// each in its severity's colour; a click on one shows its whole message
+// and marks its place on the drawing.
+type checksList struct {
+	w        *Window
+	summary  *widget.Label // the mesh and balance, the handbook case, or what to do first
+	rows     []*checkRow
+	box      *fyne.Container
+	selected int // index into w.checks; -1 for none
+}
+
+func newChecksList(w *Window) *checksList {
+	l := &checksList{w: w, summary: widget.NewLabel(""), selected: -1}
+	l.summary.Wrapping = fyne.TextWrapWord
+	l.box = container.NewVBox(l.summary)
+	return l
+}
+
+// pane is the list under its heading, scrolling when long.
+func (l *checksList) pane() fyne.CanvasObject {
+	return container.NewBorder(heading("Checks"), nil, nil, nil, container.NewVScroll(l.box))
+}
+
+// checkRow is one finding: a label that can be clicked.
+type checkRow struct {
+	widget.Label
+	onTap func()
+}
+
+func newCheckRow(onTap func()) *checkRow {
+	r := &checkRow{onTap: onTap}
+	r.Wrapping = fyne.TextWrapWord
+	r.ExtendBaseWidget(r)
+	return r
+}
+
+// Tapped is part of fyne.Tappable.
+func (r *checkRow) Tapped(*fyne.PointEvent) { r.onTap() }
+
+// show brings the list in line with w.checks and the selection.
+func (l *checksList) show() {
+	w := l.w
+	for len(l.rows) < len(w.checks) {
+		i := len(l.rows)
+		row := newCheckRow(func() { w.selectCheck(i) })
+		l.rows = append(l.rows, row)
+		l.box.Add(row)
+	}
+	for i, row := range l.rows {
+		if i >= len(w.checks) {
+			row.Hide()
+			continue
+		}
+		f := w.checks[i]
+		text := f.Status + "  " + f.Name
+		if i == l.selected {
+			text = f.Sentence()
+		}
+		row.Text, row.Importance, row.TextStyle.Bold = text, importance(f.Severity), i == l.selected
+		row.Show()
+		row.Refresh()
+	}
+	l.summary.SetText(l.summaryText())
+}
+
+// summaryText heads the list: what to do on a blank sketch, otherwise the
+// mesh and balance of the result and the handbook case it matches.
+func (l *checksList) summaryText() string {
+	w := l.w
+	if len(w.project.Model.Segments) == 0 {
+		return "No member yet, so nothing to check. Choose Member (M) and drag along the drawing, or type a length under Properties."
+	}
+	a := w.result
+	if a == nil {
+		return "solving…"
+	}
+	text := a.MeshText(w.units)
+	if len(w.checks) > 0 {
+		text += "\nClick a check to read it and see its place on the drawing."
+	}
+	if h := a.HandbookText(w.units); h != "" {
+		text += "\n\n" + h
+	}
+	return text
+}
+
+// selectCheck shows the whole message of check i (none for -1) and marks
+// its place on the drawing.
+func (w *Window) selectCheck(i int) {
+	l := w.ui.checks
+	if i < 0 || i >= len(w.checks) || i == l.selected {
+		i = -1 // a second click closes it
+	}
+	l.selected = i
+	w.highlight = [2]float64{}
+	if i >= 0 {
+		w.highlight = w.checks[i].Span
+	}
+	l.show()
+	w.draw.Refresh()
+}
+
+// showResults refreshes everything that shows the newest analysis.
+func (c *controls) showResults() {
+	w := c.w
+	c.checks.selected = -1
+	w.highlight = [2]float64{}
+	c.checks.show()
+	w.draw.Refresh()
+	c.showMagnification()
+	c.showElementsUsed()
+	w.hoverChanged()
+}
