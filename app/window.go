@@ -126,7 +126,16 @@ func newWindow(a fyne.App, p *storage.Project, path string, o options) *Window {
 }
 
 // Show shows the window.
-func (w *Window) Show() { w.win.Show() }
+//
+// The window is created under the plain title "Stave": the desktop's window
+// manager takes the window's class from its first title, and the menu entry
+// the Linux package installs (StartupWMClass=Stave) finds its windows by it.
+func (w *Window) Show() {
+	title := w.win.Title()
+	w.win.SetTitle("Stave")
+	w.win.Show()
+	w.win.SetTitle(title)
+}
 
 // Model returns the current model (not to be changed by the caller).
 func (w *Window) Model() fem.Model { return w.project.Model }
