@@ -157,10 +157,6 @@ func (s *Solution) elementInterval(e int, v *Interval) {
 	p[QShearForce][0] = sec.flexuralRigidity * g.third
 	p[QBendingMoment][0] = sec.flexuralRigidity * g.curvature
 	p[QBendingMoment][1] = sec.flexuralRigidity * g.third * h
-	for k := range 2 {
-		p[QAxialStress][k] = p[QAxialForce][k] / sec.area
-		p[QBendingStress][k] = p[QBendingMoment][k] * sec.fibre / sec.secondMoment
-	}
 	// The ends, as fieldsAt computes them at ξ = 0 and 1 (to the bit, but
 	// for the sign of a zero): the displacements are the nodal ones.
 	b := s.Displacement[e+1]
@@ -173,6 +169,10 @@ func (s *Solution) elementInterval(e int, v *Interval) {
 		BendingMoment: sec.flexuralRigidity * (g.curvature + g.third*h)}
 	sec.stresses(start)
 	sec.stresses(end)
+	// The stresses' constant terms are the start's; their slopes follow
+	// from the ends' difference, the stresses being linear here.
+	p[QAxialStress][0], p[QAxialStress][1] = start.AxialStress, end.AxialStress-start.AxialStress
+	p[QBendingStress][0], p[QBendingStress][1] = start.BendingStress, end.BendingStress-start.BendingStress
 	v.endsKnown, v.known = true, 0
 }
 
@@ -199,4 +199,13 @@ func (s *Solution) degrees() [polynomialQuantities]int {
 		}
 	}
 	return d
+}
+
+// values are the quantities of f indexed by Quantity.
+func (f *Fields) values() [quantityCount]float64 {
+	return [quantityCount]float64{
+		QAxialDisplacement: f.AxialDisplacement, QDeflection: f.Deflection, QRotation: f.Rotation,
+		QAxialForce: f.AxialForce, QShearForce: f.ShearForce, QBendingMoment: f.BendingMoment,
+		QAxialStress: f.AxialStress, QBendingStress: f.BendingStress, QCombinedStress: f.CombinedStress,
+	}
 }

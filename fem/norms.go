@@ -143,14 +143,13 @@ func (c *Comparison) Visit(v *ElementView) {
 		dn[k] = fe.poly[QAxialForce][k] - ex.poly[QAxialForce][k]
 		dm[k] = fe.poly[QBendingMoment][k] - ex.poly[QBendingMoment][k]
 	}
-	// The degrees of the differences: those of the exact fields, which are
-	// at least the finite element ones for the elements of fem.
-	du3, dw5 := exactDegrees[QAxialDisplacement], exactDegrees[QDeflection]
+	// The degrees of the differences are those of the exact fields, which
+	// are at least the finite element ones for the elements of fem.
 	m := &c.maxima
-	m.axial = max(m.axial, maxAbs(&du, du3).value)
+	m.axial = max(m.axial, maxAbs(&du, exactDegrees[QAxialDisplacement]).value)
 	// The deflection error is a quintic, whose extremes take a search.
 	if dw.MaxAbsBound() > m.deflection {
-		m.deflection = max(m.deflection, maxAbs(&dw, dw5).value)
+		m.deflection = max(m.deflection, maxAbs(&dw, exactDegrees[QDeflection]).value)
 	}
 	if e := combinedError(fe, ex); e.value > m.stress {
 		m.stress, m.stressAt = e.value, fe.X(e.xi)
@@ -159,14 +158,19 @@ func (c *Comparison) Visit(v *ElementView) {
 	h := fe.Length
 	sec := &c.solution.sections[v.Segment]
 	in := &c.sums
+	// The differences are of the exact fields' degrees (exactDegrees): u
+	// cubic, w quintic, N quadratic, M cubic.
+	disp := 0.0
 	for _, q := range gauss6 { // dw² is of degree 10
-		uq, wq := du.at(du3, q.xi), dw.at(dw5, q.xi)
-		in.dispErr += q.w * h * (uq*uq + wq*wq)
+		uq, wq := du.at3(q.xi), dw.At(q.xi)
+		disp += q.w * (uq*uq + wq*wq)
 	}
+	in.dispErr += h * disp
+	iea, iei := 1/sec.axialRigidity, 1/sec.flexuralRigidity
 	energy := 0.0
 	for _, q := range gauss4 { // dN² and dM² are of degree 6 at most
-		nq, mq := dn.at(exactDegrees[QAxialForce], q.xi), dm.at(exactDegrees[QBendingMoment], q.xi)
-		energy += q.w * (nq*nq/sec.axialRigidity + mq*mq/sec.flexuralRigidity)
+		nq, mq := dn.at2(q.xi), dm.at3(q.xi)
+		energy += q.w * (nq*nq*iea + mq*mq*iei)
 	}
 	in.energyErr += h * energy
 }
@@ -254,14 +258,15 @@ func combinedError(fe, ex *Interval) extremum {
 		da[k], db[k] = fa[k]-ex.poly[QAxialStress][k], fb[k]-ex.poly[QBendingStress][k]
 	}
 	d := max(fe.degree[QAxialStress], fe.degree[QBendingStress], ex.degree[QAxialStress], ex.degree[QBendingStress])
+	dfe := max(fe.degree[QAxialStress], fe.degree[QBendingStress])
 	var ps pieces
 	ps.reset()
-	ps.splitFibres(fa, fb, max(fe.degree[QAxialStress], fe.degree[QBendingStress]))
+	ps.splitFibres(fa, fb, dfe)
 	best := extremum{value: -1}
 	for i := 0; i < ps.n; i++ {
 		x0, x1 := ps.breaks[i], ps.breaks[i+1]
 		mid := (x0 + x1) / 2
-		g := combine(1, &da, fibreSign(fa.At(mid), fb.At(mid)), &db)
+		g := combine(1, &da, fibreSign(fa.at(dfe, mid), fb.at(dfe, mid)), &db)
 		if ps.n == 1 {
 			return maxAbs(&g, d)
 		}

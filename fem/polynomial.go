@@ -16,11 +16,7 @@ const polynomialTerms = 6
 
 // At is the value at ξ, by Horner's rule.
 func (p *Polynomial) At(xi float64) float64 {
-	v := p[5]
-	for k := 4; k >= 0; k-- {
-		v = v*xi + p[k]
-	}
-	return v
+	return p[0] + xi*(p[1]+xi*(p[2]+xi*(p[3]+xi*(p[4]+xi*p[5]))))
 }
 
 // Derivative is dP/dξ.
@@ -41,12 +37,20 @@ func (p *Polynomial) Degree() int {
 
 // at is At for a polynomial of degree at most d.
 func (p *Polynomial) at(d int, xi float64) float64 {
+	if d == 3 {
+		return p.at3(xi)
+	}
 	v := p[d]
 	for k := d - 1; k >= 0; k-- {
 		v = v*xi + p[k]
 	}
 	return v
 }
+
+// at2 and at3 are At for polynomials of degree 2 and 3 at most, written
+// out for the hot loops.
+func (p *Polynomial) at2(xi float64) float64 { return p[0] + xi*(p[1]+xi*p[2]) }
+func (p *Polynomial) at3(xi float64) float64 { return p[0] + xi*(p[1]+xi*(p[2]+xi*p[3])) }
 
 // roots writes the real roots of p inside the open interval (0, 1) to r, in
 // increasing order, and returns how many there are. A polynomial that is
@@ -196,6 +200,28 @@ func rangeOn(p *Polynomial, d int, v0, v1 float64) (lo, hi extremum) {
 	return lo, hi
 }
 
+// turnsInside reports whether p, of degree at most d, may turn inside
+// (0, 1), where its derivative could vanish; false means it is monotone
+// there and its extremes are at the ends. Cheap for degree 3 and less,
+// true for more.
+func turnsInside(p *Polynomial, d int) bool {
+	switch {
+	case d <= 1:
+		return false
+	case d == 2:
+		return (p[1] < 0) != (p[1]+2*p[2] < 0)
+	case d == 3:
+		// p' = p1 + 2·p2·ξ + 3·p3·ξ², its values at the ends and at its vertex.
+		d0, d1 := p[1], p[1]+2*p[2]+3*p[3]
+		if (d0 < 0) != (d1 < 0) {
+			return true
+		}
+		vertex := -p[2] / (3 * p[3])
+		return vertex > 0 && vertex < 1 && (p[1]+vertex*(2*p[2]+3*p[3]*vertex) < 0) != (d0 < 0)
+	}
+	return true
+}
+
 // maxAbs is the largest |p| on [0, 1] for p of degree at most d, and where.
 func maxAbs(p *Polynomial, d int) extremum {
 	lo, hi := rangeOn(p, d, p[0], p.at(d, 1))
@@ -231,20 +257,12 @@ func (e *extremum) most(xi, v float64) {
 func (p *Polynomial) MaxAbsBound() float64 {
 	// b_i = Σ_{k ≤ i} C(i, k)/C(5, k)·p_k.
 	c1, c2, c3, c4 := p[1]/5, p[2]/10, p[3]/10, p[4]/5
-	m := magnitude(p[0])
-	m = max(m, magnitude(p[0]+c1))
-	m = max(m, magnitude(p[0]+2*c1+c2))
-	m = max(m, magnitude(p[0]+3*c1+3*c2+c3))
-	m = max(m, magnitude(p[0]+4*c1+6*c2+4*c3+c4))
-	return max(m, magnitude(p[0]+p[1]+p[2]+p[3]+p[4]+p[5]))
-}
-
-// magnitude is |x| for the bounds, where NaN need not propagate.
-func magnitude(x float64) float64 {
-	if x < 0 {
-		return -x
-	}
-	return x
+	b0, b1, b2 := p[0], p[0]+c1, p[0]+2*c1+c2
+	b3, b4 := p[0]+3*c1+3*c2+c3, p[0]+4*c1+6*c2+4*c3+c4
+	b5 := p[0] + p[1] + p[2] + p[3] + p[4] + p[5]
+	lo, hi := min(b0, b1, b2), max(b0, b1, b2)
+	lo, hi = min(lo, b3, b4, b5), max(hi, b3, b4, b5)
+	return max(hi, -lo)
 }
 
 // gaussPoint is one point of a Gauss–Legendre rule on [0, 1].

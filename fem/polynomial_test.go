@@ -118,6 +118,13 @@ func TestPolynomialRangeAgainstDenseSampling(t *testing.T) {
 		if b := p.MaxAbsBound(); b < math.Max(-lo.value, hi.value)-floor {
 			t.Errorf("polynomial %d %v: Bernstein bound %g below the largest magnitude %g", i, p, b, math.Max(-lo.value, hi.value))
 		}
+		// A polynomial that does not turn inside has its extremes at the ends.
+		if !turnsInside(&p, d) {
+			ends := [2]float64{p.At(0), p.At(1)}
+			if sampledLo < min(ends[0], ends[1])-floor || sampledHi > max(ends[0], ends[1])+floor {
+				t.Errorf("polynomial %d %v: said not to turn inside, but sampled from %g to %g between ends %g and %g", i, p, sampledLo, sampledHi, ends[0], ends[1])
+			}
+		}
 	}
 }
 

@@ -78,17 +78,24 @@ func newExtremes() *extremes {
 func (x *extremes) Visit(v *ElementView) {
 	x.seen = true
 	fe := &v.FE
+	start, end := fe.End(0).values(), fe.End(1).values()
+	x0, x1 := fe.Start, fe.Start+fe.Length
 	for q := range Quantity(quantityCount) {
-		if q < QCombinedStress && fe.degree[q] <= 1 {
-			// Linear: the ends, start first.
-			for i, at := range [2]float64{fe.Start, fe.Start + fe.Length} {
-				value := q.Of(fe.End(i))
-				if value < x.lo[q].Value {
-					x.lo[q] = Point{at, value}
-				}
-				if value > x.hi[q].Value {
-					x.hi[q] = Point{at, value}
-				}
+		if q < QCombinedStress && !turnsInside(&fe.poly[q], fe.degree[q]) {
+			// Monotone (linear, say): the ends, start first.
+			lo, hi := &x.lo[q], &x.hi[q]
+			a, b := start[q], end[q]
+			if a < lo.Value {
+				*lo = Point{x0, a}
+			}
+			if a > hi.Value {
+				*hi = Point{x0, a}
+			}
+			if b < lo.Value {
+				*lo = Point{x1, b}
+			}
+			if b > hi.Value {
+				*hi = Point{x1, b}
 			}
 			continue
 		}

@@ -170,16 +170,7 @@ func (ps *pieces) split(p *Polynomial, d int) {
 	}
 	var r [polynomialTerms - 1]float64
 	for _, x := range r[:p.roots(&r)] {
-		i := ps.n
-		for ps.breaks[i-1] > x {
-			i--
-		}
-		if ps.breaks[i-1] == x {
-			continue
-		}
-		copy(ps.breaks[i+1:ps.n+2], ps.breaks[i:ps.n+1])
-		ps.breaks[i] = x
-		ps.n++
+		ps.cut(x)
 	}
 }
 
@@ -206,11 +197,51 @@ func (ps *pieces) piece(i int, a, b *Polynomial) Polynomial {
 // and σb = b, of degree d at most: where σb changes sign, and where |σa|
 // crosses fibreTie·|σb|, the zeros of a ∓ fibreTie·b.
 func (ps *pieces) splitFibres(a, b *Polynomial, d int) {
+	if d <= 1 {
+		ps.splitLinearFibres(a, b)
+		return
+	}
 	ps.split(b, d)
 	for _, t := range []float64{fibreTie, -fibreTie} {
 		g := combine(1, a, -t, b)
 		ps.split(&g, d)
 	}
+}
+
+// splitLinearFibres is splitFibres for linear a and b, in closed form.
+func (ps *pieces) splitLinearFibres(a, b *Polynomial) {
+	a1, b1 := a[0]+a[1], b[0]+b[1] // at ξ = 1
+	if (b[0] < 0) != (b1 < 0) {
+		ps.cutLine(b[0], b[1])
+	}
+	// |σa| crosses fibreTie·|σb| only where σa is about zero.
+	if (a[0] < 0) == (a1 < 0) && min(math.Abs(a[0]), math.Abs(a1)) > fibreTie*max(math.Abs(b[0]), math.Abs(b1)) {
+		return
+	}
+	for _, t := range [2]float64{fibreTie, -fibreTie} {
+		ps.cutLine(a[0]-t*b[0], a[1]-t*b[1])
+	}
+}
+
+// cutLine cuts the pieces where c0 + c1·ξ vanishes inside (0, 1).
+func (ps *pieces) cutLine(c0, c1 float64) {
+	if x := -c0 / c1; x > 0 && x < 1 {
+		ps.cut(x)
+	}
+}
+
+// cut cuts the piece holding x, inside (0, 1), at x.
+func (ps *pieces) cut(x float64) {
+	i := ps.n
+	for ps.breaks[i-1] > x {
+		i--
+	}
+	if ps.breaks[i-1] == x {
+		return
+	}
+	copy(ps.breaks[i+1:ps.n+2], ps.breaks[i:ps.n+1])
+	ps.breaks[i] = x
+	ps.n++
 }
 
 // combine is sa·a + sb·b.
@@ -234,24 +265,12 @@ func (v *Interval) combinedRange() (lo, hi extremum) {
 	}
 	if d <= 1 {
 		// Linear stresses: the combined stress is linear between the places
-		// where the fibre may change (σb changes sign, |σa| crosses
-		// fibreTie·|σb|), and either fibre's value there is a limit.
-		var cuts [3]float64
-		n := 0
-		for _, t := range [3]float64{0, fibreTie, -fibreTie} {
-			c0, c1 := a[0]-t*b[0], a[1]-t*b[1]
-			if t == 0 {
-				c0, c1 = b[0], b[1]
-			}
-			if xi := -c0 / c1; xi > 0 && xi < 1 {
-				i := n
-				for ; i > 0 && cuts[i-1] > xi; i-- {
-					cuts[i] = cuts[i-1]
-				}
-				cuts[i], n = xi, n+1
-			}
-		}
-		for _, xi := range cuts[:n] {
+		// where the fibre may change, and either fibre's value there is a
+		// limit.
+		var ps pieces
+		ps.reset()
+		ps.splitLinearFibres(a, b)
+		for _, xi := range ps.breaks[1:ps.n] {
 			av, bv := a[0]+a[1]*xi, b[0]+b[1]*xi
 			take(xi, av+bv)
 			take(xi, av-bv)
@@ -364,29 +383,23 @@ func (s *exactStretch) interval(t0, scale, start, h float64, v *Interval) {
 	taylorShift(&w, exactDegrees[QDeflection], t0, scale)
 	ih := 1 / h
 	ea, ei := s.bar.stiffness*ih, s.beam.stiffness*ih*ih
+	ia, ci := 1/s.area, s.fibre/s.secondMoment
 	p := &v.poly
 	p[QAxialDisplacement], p[QDeflection] = u, w
-	for k := range 5 {
-		p[QRotation][k] = float64(k+1) * w[k+1] * ih
-	}
-	for k := range 3 {
-		p[QAxialForce][k] = ea * float64(k+1) * u[k+1]
-		p[QShearForce][k] = ei * ih * float64((k+1)*(k+2)*(k+3)) * w[k+3]
-	}
-	p[QAxialForce][0] += s.bar.offset
-	for k := range 4 {
-		p[QBendingMoment][k] = ei * float64((k+1)*(k+2)) * w[k+2]
-		p[QBendingStress][k] = p[QBendingMoment][k] * s.fibre / s.secondMoment
-	}
-	for k := range 3 {
-		p[QAxialStress][k] = p[QAxialForce][k] / s.area
-	}
+	p[QRotation] = Polynomial{w[1] * ih, 2 * w[2] * ih, 3 * w[3] * ih, 4 * w[4] * ih, 5 * w[5] * ih}
+	p[QAxialForce] = Polynomial{ea*u[1] + s.bar.offset, 2 * ea * u[2], 3 * ea * u[3]}
+	p[QShearForce] = Polynomial{6 * ei * ih * w[3], 24 * ei * ih * w[4], 60 * ei * ih * w[5]}
+	p[QBendingMoment] = Polynomial{2 * ei * w[2], 6 * ei * w[3], 12 * ei * w[4], 20 * ei * w[5]}
+	n, m := &p[QAxialForce], &p[QBendingMoment]
+	p[QAxialStress] = Polynomial{n[0] * ia, n[1] * ia, n[2] * ia}
+	p[QBendingStress] = Polynomial{m[0] * ci, m[1] * ci, m[2] * ci, m[3] * ci}
 	v.Start, v.Length = start, h
 	v.degree = exactDegrees
 	v.known, v.endsKnown = 0, false
 }
 
 // taylorShift turns p(t), of degree d (3 or 5), into q(ξ) = p(t0 + scale·ξ).
+// The steps are written out: the loops' bounds are then constants.
 func taylorShift(p *Polynomial, d int, t0, scale float64) {
 	if d == 3 {
 		p[2] += t0 * p[3]
@@ -399,11 +412,21 @@ func taylorShift(p *Polynomial, d int, t0, scale float64) {
 		p[1], p[2], p[3] = p[1]*scale, p[2]*s2, p[3]*s2*scale
 		return
 	}
-	for i := 0; i < d; i++ {
-		for k := d - 1; k >= i; k-- {
-			p[k] += t0 * p[k+1]
-		}
-	}
+	p[4] += t0 * p[5]
+	p[3] += t0 * p[4]
+	p[2] += t0 * p[3]
+	p[1] += t0 * p[2]
+	p[0] += t0 * p[1]
+	p[4] += t0 * p[5]
+	p[3] += t0 * p[4]
+	p[2] += t0 * p[3]
+	p[1] += t0 * p[2]
+	p[4] += t0 * p[5]
+	p[3] += t0 * p[4]
+	p[2] += t0 * p[3]
+	p[4] += t0 * p[5]
+	p[3] += t0 * p[4]
+	p[4] += t0 * p[5]
 	s2 := scale * scale
 	s4 := s2 * s2
 	p[1], p[2], p[3], p[4], p[5] = p[1]*scale, p[2]*s2, p[3]*s2*scale, p[4]*s4, p[5]*s4*scale
