@@ -82,30 +82,24 @@ func (x *extremes) Visit(v *ElementView) {
 	x0, x1 := fe.Start, fe.Start+fe.Length
 	for q := range Quantity(quantityCount) {
 		if q < QCombinedStress && !turnsInside(&fe.poly[q], fe.degree[q]) {
-			// Monotone (linear, say): the ends, start first.
-			lo, hi := &x.lo[q], &x.hi[q]
-			a, b := start[q], end[q]
-			if a < lo.Value {
-				*lo = Point{x0, a}
-			}
-			if a > hi.Value {
-				*hi = Point{x0, a}
-			}
-			if b < lo.Value {
-				*lo = Point{x1, b}
-			}
-			if b > hi.Value {
-				*hi = Point{x1, b}
-			}
+			// Monotone (linear, say): the ends, start first, as Range would
+			// give them; read here without its bookkeeping.
+			x.take(q, Point{x0, start[q]}, Point{x0, start[q]})
+			x.take(q, Point{x1, end[q]}, Point{x1, end[q]})
 			continue
 		}
 		lo, hi := fe.Range(q)
-		if lo.Value < x.lo[q].Value {
-			x.lo[q] = lo
-		}
-		if hi.Value > x.hi[q].Value {
-			x.hi[q] = hi
-		}
+		x.take(q, lo, hi)
+	}
+}
+
+// take keeps lo and hi where they are beyond the extremes of q so far.
+func (x *extremes) take(q Quantity, lo, hi Point) {
+	if lo.Value < x.lo[q].Value {
+		x.lo[q] = lo
+	}
+	if hi.Value > x.hi[q].Value {
+		x.hi[q] = hi
 	}
 }
 
@@ -114,13 +108,8 @@ func (x *extremes) Fork() Visitor { return newExtremes() }
 func (x *extremes) Join(later Visitor) {
 	y := later.(*extremes)
 	x.seen = x.seen || y.seen
-	for q := range x.lo {
-		if y.lo[q].Value < x.lo[q].Value {
-			x.lo[q] = y.lo[q]
-		}
-		if y.hi[q].Value > x.hi[q].Value {
-			x.hi[q] = y.hi[q]
-		}
+	for q := range Quantity(quantityCount) {
+		x.take(q, y.lo[q], y.hi[q])
 	}
 }
 

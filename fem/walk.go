@@ -108,9 +108,16 @@ func (v *Interval) Range(q Quantity) (lo, hi Point) {
 	}
 	r := &v.ranges[q]
 	if v.known&(1<<q) == 0 {
-		if q == QCombinedStress {
+		switch {
+		case q == QCombinedStress:
 			r[0], r[1] = v.combinedRange()
-		} else {
+		case !turnsInside(&v.poly[q], v.degree[q]):
+			// Monotone: the ends.
+			a, b := q.Of(v.End(0)), q.Of(v.End(1))
+			r[0], r[1] = extremum{0, a}, extremum{0, a}
+			r[0].least(1, b)
+			r[1].most(1, b)
+		default:
 			r[0], r[1] = rangeOn(&v.poly[q], v.degree[q], q.Of(v.End(0)), q.Of(v.End(1)))
 		}
 		v.known |= 1 << q
