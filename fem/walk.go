@@ -386,8 +386,8 @@ func (s *exactStretch) interval(t0, scale, start, h float64, v *Interval) {
 	var u, w Polynomial
 	copy(u[:], s.bar.coeff)
 	copy(w[:], s.beam.coeff)
-	taylorShift(&u, exactDegrees[QAxialDisplacement], t0, scale)
-	taylorShift(&w, exactDegrees[QDeflection], t0, scale)
+	taylorShift(&u, t0, scale)
+	taylorShift(&w, t0, scale)
 	ih := 1 / h
 	ea, ei := s.bar.stiffness*ih, s.beam.stiffness*ih*ih
 	ia, ci := 1/s.area, s.fibre/s.secondMoment
@@ -405,20 +405,9 @@ func (s *exactStretch) interval(t0, scale, start, h float64, v *Interval) {
 	v.known, v.endsKnown = 0, false
 }
 
-// taylorShift turns p(t), of degree d (3 or 5), into q(ξ) = p(t0 + scale·ξ).
-// The steps are written out: the loops' bounds are then constants.
-func taylorShift(p *Polynomial, d int, t0, scale float64) {
-	if d == 3 {
-		p[2] += t0 * p[3]
-		p[1] += t0 * p[2]
-		p[0] += t0 * p[1]
-		p[2] += t0 * p[3]
-		p[1] += t0 * p[2]
-		p[2] += t0 * p[3]
-		s2 := scale * scale
-		p[1], p[2], p[3] = p[1]*scale, p[2]*s2, p[3]*s2*scale
-		return
-	}
+// taylorShift turns p(t) into q(ξ) = p(t0 + scale·ξ). The steps are
+// written out, which the compiler turns into straight code.
+func taylorShift(p *Polynomial, t0, scale float64) {
 	p[4] += t0 * p[5]
 	p[3] += t0 * p[4]
 	p[2] += t0 * p[3]
