@@ -131,8 +131,10 @@ func (a *Analysis) Problem() string {
 	return a.Err.Error()
 }
 
-// Summary is fem.Summarize of the solution against the exact one, with a
-// warning when the exact solution is missing; a must have a Solution.
+// Summary is fem.Summarize of the solution against the exact one, as
+// Finish's walk gathered it (worked out here before Finish), with a warning
+// when the exact solution is missing; a must have a Solution. It is a copy:
+// the caller may change it.
 func (a *Analysis) Summary() fem.Summary {
 	var sum fem.Summary
 	if a.summary == nil {
