@@ -1,10 +1,12 @@
 package canvas
 
 import (
+	"bufio"
 	"encoding/csv"
 	"fmt"
 	"io"
 	"strconv"
+	"strings"
 
 	"stave/fem"
 	"stave/fem/units"
@@ -19,29 +21,50 @@ var csvPreamble = []string{
 	"# N tension positive; M sagging positive (M = EI w''); V = dM/dx; stresses tension positive, bending in the bottom fibre.",
 }
 
+// Points per element of the results table by default (DefaultCSVPoints):
+// four intervals per element up to csvRows rows in all, fewer on larger
+// meshes, and never fewer than one (both ends of every element, so every
+// jump shows).
+const (
+	csvDefaultPoints = 4
+	csvRows          = 100_000
+	// CSVMaxPoints bounds the intervals per element a table may ask for.
+	CSVMaxPoints = 1000
+)
+
+// DefaultCSVPoints is the number of intervals each of elements elements is
+// sampled in by default: 4, fewer from 20,000 elements on so that a table
+// keeps to about 100,000 rows, and at least 1.
+func DefaultCSVPoints(elements int) int {
+	return max(1, min(csvDefaultPoints, csvRows/max(elements, 1)-1))
+}
+
 // WriteCSV writes x and every result quantity, finite element and (when e is
 // not nil) exact, at perElement+1 points in each element, both ends included,
-// in the display units of u named in the header, after a preamble of comment
-// lines. An element's start is read from the right and its end from the left,
-// so jumps show as two rows at one x.
+// in the display units of u (SI when u is the zero System), after a preamble
+// of comment lines that states the unit system and the units of every
+// column. An element's start is read from the right and its end from the
+// left, so jumps show as two rows at one x. The table is streamed: it is
+// formatted in chunks of elements walked in order (fem.Solution.Elements),
+// into a few reused buffers, so memory does not grow with the mesh.
 func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perElement int) error {
 	if s == nil {
 		return fmt.Errorf("canvas: there are no results to write: solve the model first")
 	}
-	if perElement < 1 {
-		return fmt.Errorf("canvas: %d points per element is too few: use at least 1", perElement)
+	if perElement < 1 || perElement > CSVMaxPoints {
+		return fmt.Errorf("canvas: %d points per element: use from 1 to %d", perElement, CSVMaxPoints)
 	}
 	if u.Name == "" {
 		u = units.SI
 	}
-	for _, line := range csvPreamble {
-		if _, err := fmt.Fprintln(w, line); err != nil {
-			return err
-		}
-	}
-	cw := csv.NewWriter(w)
-	header := []string{fmt.Sprintf("x [%s]", u.Unit(units.Position).Symbol)}
+	out := bufio.NewWriterSize(w, 64<<10)
 	qs := fem.Quantities()
+	for _, line := range csvPreamble {
+		out.WriteString(line + "\n")
+	}
+	out.WriteString(csvUnitsLine(u, qs) + "\n")
+	fmt.Fprintf(out, "# Each element at %d evenly spaced points (%d intervals), both ends included.\n", perElement+1, perElement)
+	header := []string{fmt.Sprintf("x [%s]", u.Unit(units.Position).Symbol)}
 	for _, q := range qs {
 		c := q.Info()
 		sym := u.Unit(c.Unit).Symbol
@@ -50,36 +73,126 @@ func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perEle
 			header = append(header, fmt.Sprintf("%s exact [%s]", c.Column, sym))
 		}
 	}
+	cw := csv.NewWriter(out)
 	if err := cw.Write(header); err != nil {
 		return err
 	}
-	num := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
-	row := make([]string, 0, len(header))
-	for _, el := range s.Mesh.Elements {
-		for j := 0; j <= perElement; j++ {
-			x := el.Start + (el.End-el.Start)*float64(j)/float64(perElement)
-			side := fem.Right
-			if j == perElement {
-				side = fem.Left
-			}
-			fe := s.At(x, side)
-			var ex fem.Fields
-			if e != nil {
-				ex = e.At(x, side)
-			}
-			row = append(row[:0], num(u.ToDisplay(units.Position, x)))
-			for _, q := range qs {
-				kind := q.Info().Unit
-				row = append(row, num(u.ToDisplay(kind, q.Of(&fe))))
-				if e != nil {
-					row = append(row, num(u.ToDisplay(kind, q.Of(&ex))))
+	cw.Flush()
+	t := csvTable{s: s, e: e, perElement: perElement, position: u.Unit(units.Position).ToSI, qs: qs}
+	for _, q := range qs {
+		t.divisor = append(t.divisor, u.Unit(q.Info().Unit).ToSI)
+	}
+	if err := t.stream(out); err != nil {
+		return err
+	}
+	return out.Flush()
+}
+
+// csvTable formats the rows of a results table.
+type csvTable struct {
+	s          *fem.Solution
+	e          *fem.Exact
+	perElement int
+	qs         []fem.Quantity
+	// Display value = SI value / ToSI, as units.System.ToDisplay computes it.
+	position float64
+	divisor  []float64
+}
+
+// csvChunkRows is about how many rows one chunk of a table holds: four
+// chunks' buffers, some megabytes, are what the table holds in memory.
+const csvChunkRows = 4096
+
+// stream formats the table in chunks of elements on two goroutines, each
+// into its own buffers, and writes the chunks to w in order: formatting
+// numbers, not the walk, is most of the work.
+func (t *csvTable) stream(w io.Writer) error {
+	n := len(t.s.Mesh.Elements)
+	perChunk := max(1, csvChunkRows/(t.perElement+1))
+	chunks := (n + perChunk - 1) / perChunk
+	workers := min(2, chunks)
+	ready, free := make([]chan []byte, workers), make([]chan []byte, workers)
+	done := make(chan struct{})
+	defer close(done)
+	for k := range workers {
+		ready[k], free[k] = make(chan []byte, 1), make(chan []byte, 2)
+		for range 2 {
+			// Room for the rows of a chunk at up to 24 bytes a number.
+			free[k] <- make([]byte, 0, perChunk*(t.perElement+1)*24*t.columns())
+		}
+		go func() {
+			for c := k; c < chunks; c += workers {
+				var buf []byte
+				select {
+				case buf = <-free[k]:
+				case <-done:
+					return
+				}
+				buf = t.rows(buf[:0], c*perChunk, min((c+1)*perChunk, n))
+				select {
+				case ready[k] <- buf:
+				case <-done:
+					return
 				}
 			}
-			if err := cw.Write(row); err != nil {
-				return err
+		}()
+	}
+	for c := range chunks {
+		buf := <-ready[c%workers]
+		if _, err := w.Write(buf); err != nil {
+			return err
+		}
+		free[c%workers] <- buf
+	}
+	return nil
+}
+
+// columns is the number of columns of the table.
+func (t *csvTable) columns() int {
+	if t.e != nil {
+		return 1 + 2*len(t.qs)
+	}
+	return 1 + len(t.qs)
+}
+
+// rows appends the rows of elements from ≤ i < to to buf: at each element's
+// perElement+1 points, the start read from the right, the end from the
+// left.
+func (t *csvTable) rows(buf []byte, from, to int) []byte {
+	var fe, ex fem.Fields
+	for el := range t.s.Elements(t.e, from, to) {
+		h := el.End - el.Start
+		for j := 0; j <= t.perElement; j++ {
+			x, xi := el.Start+h*float64(j)/float64(t.perElement), 1.0
+			if j < t.perElement {
+				xi = min(max((x-el.Start)/h, 0), 1) // as Solution.InElement finds it
 			}
+			el.FE.At(xi, &fe)
+			if t.e != nil {
+				el.Exact.At(xi, &ex)
+			}
+			buf = strconv.AppendFloat(buf, x/t.position, 'g', -1, 64)
+			for i, q := range t.qs {
+				buf = append(buf, ',')
+				buf = strconv.AppendFloat(buf, q.Of(&fe)/t.divisor[i], 'g', -1, 64)
+				if t.e != nil {
+					buf = append(buf, ',')
+					buf = strconv.AppendFloat(buf, q.Of(&ex)/t.divisor[i], 'g', -1, 64)
+				}
+			}
+			buf = append(buf, '\n')
 		}
 	}
-	cw.Flush()
-	return cw.Error()
+	return buf
+}
+
+// csvUnitsLine states the unit system and the unit of every column.
+func csvUnitsLine(u units.System, qs []fem.Quantity) string {
+	var b strings.Builder
+	fmt.Fprintf(&b, "# Units: %s. x in %s", u.Name, u.Unit(units.Position).Symbol)
+	for _, q := range qs {
+		c := q.Info()
+		fmt.Fprintf(&b, "; %s in %s", c.Column, u.Unit(c.Unit).Symbol)
+	}
+	return b.String() + "."
 }

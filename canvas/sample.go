@@ -8,52 +8,22 @@ import (
 	"stave/fem"
 )
 
-// quantity is one result quantity as the sampler reads it: with how it
-// varies inside an element.
+// quantity is one result quantity as the sampler reads it. How it varies
+// inside an element, which decides what must be read at the element's
+// ends, is asked of the solution's element formulations
+// (fem.Solution.Varies).
 type quantity struct {
 	fem.Quantity
-	within variation
+	// peaks asks for the quantity's extremes in closed form as well as its
+	// samples: the deformed shape labels its peak where the deflection's
+	// cubic has zero slope, as the results table reports it.
+	peaks bool
 }
 
-// sampled is q with its variation (see variations).
-func sampled(q fem.Quantity) quantity { return quantity{q, variations[q]} }
+// sampled is q as the sampler reads it for a diagram.
+func sampled(q fem.Quantity) quantity { return quantity{Quantity: q} }
 
-// variation is how a quantity varies inside an element, which decides what
-// must be read to know its value at the element's end. Hermite beam elements
-// have a cubic w, a linear M and a constant V; linear bar elements a constant
-// N (Hughes, The Finite Element Method, ch. 1, from memory).
-type variation int
-
-const (
-	// general quantities must be read at the end; the zero value, so that a
-	// quantity nobody classified is read, not guessed.
-	general variation = iota
-	// nodal quantities end on the node's own displacement.
-	nodal
-	// constant quantities end on their value at the start.
-	constant
-	// sloped quantities end on the value at the start plus the shear force
-	// times the length: the bending moment, since V = dM/dx.
-	sloped
-	// constantInLinearBar quantities are constant in linear bars and must be
-	// read at the end of quadratic ones: the axial force.
-	constantInLinearBar
-	// extremeFibre quantities follow from N and M at the end: the combined
-	// stress N/A ± M·c/I of larger magnitude (fem.Fields).
-	extremeFibre
-)
-
-// variations classifies the quantities whose ends can be known without
-// reading them; every other quantity is general.
-var variations = map[fem.Quantity]variation{
-	fem.QDeflection:     nodal,
-	fem.QAxialForce:     constantInLinearBar,
-	fem.QShearForce:     constant,
-	fem.QBendingMoment:  sloped,
-	fem.QCombinedStress: extremeFibre,
-}
-
-var deflectionQuantity = sampled(fem.QDeflection)
+var deflectionQuantity = quantity{Quantity: fem.QDeflection, peaks: true}
 
 // extreme is a value and where it occurs.
 type extreme struct{ x, value float64 }
@@ -73,6 +43,9 @@ type curve struct {
 	cols   []column
 	lo, hi extreme // over all samples
 	n      int
+	// peakLo and peakHi are the extremes in closed form over the elements
+	// read, for a quantity that asks for them (quantity.peaks).
+	peakLo, peakHi extreme
 }
 
 // reset empties c for view v, keeping its memory when it is large enough.
@@ -84,7 +57,18 @@ func (c *curve) reset(v View) {
 	}
 	c.cols = c.cols[:n]
 	clear(c.cols)
-	*c = curve{v: v, cols: c.cols, lo: extreme{value: math.Inf(1)}, hi: extreme{value: math.Inf(-1)}}
+	*c = curve{v: v, cols: c.cols, lo: extreme{value: math.Inf(1)}, hi: extreme{value: math.Inf(-1)},
+		peakLo: extreme{value: math.Inf(1)}, peakHi: extreme{value: math.Inf(-1)}}
+}
+
+// takePeaks takes the closed-form extremes of one element.
+func (c *curve) takePeaks(lo, hi fem.Point) {
+	if lo.Value < c.peakLo.value {
+		c.peakLo = extreme{lo.X, lo.Value}
+	}
+	if hi.Value > c.peakHi.value {
+		c.peakHi = extreme{hi.X, hi.Value}
+	}
 }
 
 // column is the index of the column holding model x.
@@ -136,6 +120,7 @@ func (c *curve) finish() {
 
 // merge appends the samples of o, which all follow those of c, column by column.
 func (c *curve) merge(o *curve) {
+	c.takePeaks(fem.Point{X: o.peakLo.x, Value: o.peakLo.value}, fem.Point{X: o.peakHi.x, Value: o.peakHi.value})
 	for k := range o.cols {
 		col, next := &c.cols[k], &o.cols[k]
 		switch {
@@ -157,14 +142,20 @@ func (c *curve) merge(o *curve) {
 }
 
 // peakAbs is the sample of largest magnitude.
-func (c *curve) peakAbs() extreme {
-	if c.n == 0 {
+func (c *curve) peakAbs() extreme { return largerOf(c.n, c.lo, c.hi) }
+
+// peak is the closed-form extreme of largest magnitude (quantity.peaks).
+func (c *curve) peak() extreme { return largerOf(c.n, c.peakLo, c.peakHi) }
+
+// largerOf is lo or hi, whichever is larger in magnitude; zero without samples.
+func largerOf(n int, lo, hi extreme) extreme {
+	if n == 0 {
 		return extreme{}
 	}
-	if math.Abs(c.lo.value) > math.Abs(c.hi.value) {
-		return c.lo
+	if math.Abs(lo.value) > math.Abs(hi.value) {
+		return lo
 	}
-	return c.hi
+	return hi
 }
 
 // points turns the columns into a polyline with toY mapping values to screen y.
@@ -254,77 +245,50 @@ func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, t
 			cs[i].addTo(k, x, qs[i].Of(f))
 		}
 	}
-	// What a narrow element's ends need: an evaluation at the start unless
-	// every quantity is nodal, and one at the end for a general quantity or
-	// if the axial force varies inside the elements (quadratic bars) and is
-	// drawn or makes the stress.
-	readStart, readEnd, stress := false, false, false
-	for _, q := range qs {
-		stress = stress || q.within == extremeFibre
-		readStart = readStart || q.within != nodal
-		readEnd = readEnd || q.within == general || (q.within == constantInLinearBar || q.within == extremeFibre) &&
-			s.Model.Mesh.BarOrder == fem.QuadraticBar
+	// What a narrow element's end adds: nothing for a nodal quantity, which
+	// the next element's start repeats, nor below a pixel for a constant one.
+	nodal, constant := make([]bool, len(qs)), make([]bool, len(qs))
+	for i, q := range qs {
+		vary := s.Varies(q.Quantity)
+		nodal[i], constant[i] = vary.Nodal, vary.Degree == 0
 	}
 	// The fields of the samples, kept in one place: passed by pointer to the
 	// quantities' readers they would otherwise move to the heap one by one.
-	start, end := new(fem.Fields), new(fem.Fields)
-	for k, e := range s.Mesh.Elements[from:to] {
-		k += from
-		h := e.End - e.Start
+	f := new(fem.Fields)
+	for el := range s.Elements(nil, from, to) {
+		for i, q := range qs {
+			if q.peaks {
+				cs[i].takePeaks(el.FE.Range(q.Quantity))
+			}
+		}
+		h := el.End - el.Start
 		inner := int(min(maxSamplesPerElement, h*v.Scale/3))
 		if inner > 0 {
 			for j := 0; j <= inner+1; j++ {
-				x := e.Start + h*float64(j)/float64(inner+1)
+				x := el.Start + h*float64(j)/float64(inner+1)
 				if j == inner+1 {
-					x = e.End
+					x = el.End
 				}
-				*start = s.InElement(k, x)
-				add(x, start)
+				// ξ as InElement finds it from x, so that the drawing
+				// reads the fields as it always has, to the bit.
+				el.FE.At(min(max((x-el.Start)/h, 0), 1), f)
+				add(x, f)
 			}
 			continue
 		}
-		if readStart {
-			*start = s.InElement(k, e.Start)
-		} else {
-			*start = fem.Fields{Deflection: s.Displacement[e.First][fem.Transverse]}
-		}
-		if readEnd {
-			*end = s.InElement(k, e.End)
-		} else {
-			*end = fem.Fields{
-				Deflection:    s.Displacement[e.First+1][fem.Transverse],
-				AxialForce:    start.AxialForce,
-				ShearForce:    start.ShearForce,
-				BendingMoment: start.BendingMoment + start.ShearForce*h,
-			}
-			if stress {
-				end.CombinedStress = combinedStress(end.AxialForce, end.BendingMoment, s.Model.Segments[e.Segment].Section)
-			}
-		}
-		add(e.Start, start)
+		add(el.Start, el.FE.End(0))
 		// The end repeats the next element's start for a nodal quantity and,
 		// below a pixel, the start's value for a constant one (a jump at
 		// the node then shows within the pixel column, as it would anyway).
-		last, subPixel := k == visible-1, h*v.Scale < 1
-		kEnd := cs[0].column(e.End)
+		last, subPixel := el.Index == visible-1, h*v.Scale < 1
+		kEnd := cs[0].column(el.End)
 		for i := range qs {
-			q := &qs[i]
-			if q.within == nodal && !last || q.within == constant && subPixel {
+			if nodal[i] && !last || constant[i] && subPixel {
 				continue
 			}
-			cs[i].addTo(kEnd, e.End, q.Of(end))
+			cs[i].addTo(kEnd, el.End, qs[i].Of(el.FE.End(1)))
 		}
 	}
-}
-
-// combinedStress is N/A + M·c/I or N/A − M·c/I, whichever is larger in
-// magnitude, computed as package fem does for Fields.CombinedStress.
-func combinedStress(axialForce, moment float64, sec fem.Section) float64 {
-	axial, bending := axialForce/sec.Area, moment*sec.FibreDistance/sec.SecondMoment
-	if bottom, top := axial+bending, axial-bending; math.Abs(top) > math.Abs(bottom) {
-		return top
-	}
-	return axial + bending
 }
 
 // exactCurves reads the exact solution once per pixel column and on both

@@ -35,8 +35,9 @@ func sampledByAt(s *fem.Solution, v View, qs []quantity) []*curve {
 			}
 			f := s.At(x, side)
 			for i, q := range qs {
-				repeat := inner == 0 && j == 1 && (q.within == nodal && n < len(visible)-1 ||
-					q.within == constant && (e.End-e.Start)*v.Scale < 1)
+				vary := s.Varies(q.Quantity)
+				repeat := inner == 0 && j == 1 && (vary.Nodal && n < len(visible)-1 ||
+					vary.Degree == 0 && (e.End-e.Start)*v.Scale < 1)
 				if !repeat {
 					cs[i].add(x, q.Of(&f))
 				}
@@ -61,7 +62,7 @@ func TestSampleCurvesMatchReadingEveryEnd(t *testing.T) {
 		drawn = append(drawn, sampled(d.quantity))
 	}
 	drawn = append(drawn, deflectionQuantity)
-	// A quantity left unclassified is read at both ends.
+	// A quantity that is neither nodal nor constant is read at both ends.
 	rotation := sampled(fem.QRotation)
 	for _, c := range []struct {
 		elements int

@@ -647,13 +647,12 @@ func (b *builder) scaleBar(top float32) {
 // deformed draws the magnified deflection over the member.
 func (b *builder) deformed(lay layoutBands) {
 	curve := b.deflection
-	peak := curve.peakAbs()
+	// Labelled where the curve has zero slope, as the results table says,
+	// not at the nearest pixel column's sample.
+	peak := curve.peak()
 	if peak.value == 0 {
 		return
 	}
-	// Labelled where the curve has zero slope, as the results table says,
-	// not at the nearest pixel column's sample.
-	peak.x, peak.value = b.in.Solution.DeflectionExtremum(peak.x, peak.value > 0)
 	band := float64(lay.sketchBottom - lay.top)
 	mag := b.in.Magnification
 	if mag <= 0 {

@@ -66,11 +66,17 @@ func (s *Solution) Sample(n int) []Fields {
 // nodal values would bring on fine meshes.
 func (s *Solution) InElement(e int, x float64) Fields {
 	el := s.Mesh.Elements[e]
+	var f Fields
+	s.fieldsAt(e, min(max((x-el.Start)/(el.End-el.Start), 0), 1), &f)
+	return f
+}
+
+// fieldsAt writes the fields at local coordinate ξ ∈ [0, 1] of element e to f.
+func (s *Solution) fieldsAt(e int, xi float64, f *Fields) {
+	el := s.Mesh.Elements[e]
 	sec := &s.sections[el.Segment]
 	h := el.End - el.Start
-	xi := min(max((x-el.Start)/h, 0), 1)
-	x = el.Start + xi*h
-	f := Fields{X: x}
+	f.X = el.Start + xi*h
 	a, b := s.ends(e)
 	g := s.fields[e]
 
@@ -87,73 +93,123 @@ func (s *Solution) InElement(e int, x float64) Fields {
 	f.Rotation = (1-xi)*fromStart + xi*fromEnd
 	f.BendingMoment = sec.flexuralRigidity * curvature
 	f.ShearForce = sec.flexuralRigidity * g.third
+	sec.stresses(f)
+}
 
+// stresses sets the stresses of f from its axial force and bending moment.
+func (sec *sectionData) stresses(f *Fields) {
 	f.AxialStress = f.AxialForce / sec.area
 	f.BendingStress = f.BendingMoment * sec.fibre / sec.secondMoment
-	f.CombinedStress = extremeFibreStress(f.AxialStress, f.BendingStress)
-	return f
+	f.CombinedStress = combinedStress(f.AxialStress, f.BendingStress)
 }
 
-// DeflectionExtremum refines an extreme of the finite element deflection
-// found by sampling near x: among x itself and the points of the element
-// holding x and of its two neighbours where that element's cubic has zero
-// slope, it returns the one with the largest deflection (the smallest when
-// largest is false). Two samplings of a flat peak then report the same
-// place, not each its own sample.
-func (s *Solution) DeflectionExtremum(x float64, largest bool) (at, w float64) {
-	if s == nil || len(s.fields) == 0 {
-		return x, 0
-	}
-	better := func(v, than float64) bool { return largest && v > than || !largest && v < than }
-	e := s.elementAt(x, Right)
-	at, w = x, s.InElement(e, x).Deflection
-	for k := max(e-1, 0); k <= min(e+1, len(s.fields)-1); k++ {
-		for _, xi := range s.stationaryPoints(k) {
-			el := s.Mesh.Elements[k]
-			p := el.Start + xi*(el.End-el.Start)
-			if v := s.InElement(k, p).Deflection; better(v, w) {
-				at, w = p, v
-			}
-		}
-	}
-	return at, w
+// fibreTie is the size of an axial stress, relative to the bending stress,
+// below which it counts as none: round-off of a member without axial force.
+const fibreTie = 4 * 0x1p-52
+
+// combinedStress is the extreme-fibre stress σa ± σb of larger magnitude
+// (σa the axial, σb the bending stress): σa + |σb| under axial tension,
+// σa − |σb| under compression, and the bottom fibre σa + σb when σa is zero
+// or within round-off of σb (fibreTie), so that noise in a member without
+// axial force cannot flip its sign. It is extremeFibreStress but there.
+func combinedStress(a, b float64) float64 {
+	return a + fibreSign(a, b)*b
 }
 
-// stationaryPoints returns the ξ in (0, 1) where the Hermite cubic of
-// element e has zero slope: dw/dξ = c2·ξ² + c1·ξ + c0 from the derivatives of
-// the shape functions of hermiteValues.
-func (s *Solution) stationaryPoints(e int) []float64 {
-	h := s.Mesh.Elements[e].End - s.Mesh.Elements[e].Start
-	a, b := s.ends(e)
-	wa, ta, wb, tb := a[Transverse], h*a[Rotation], b[Transverse], h*b[Rotation]
-	c2 := 6*wa + 3*ta - 6*wb + 3*tb
-	c1 := -6*wa - 4*ta + 6*wb - 2*tb
-	c0 := ta
-	var roots []float64
+// fibreSign is the sign of σb in combinedStress(a, b).
+func fibreSign(a, b float64) float64 {
 	switch {
-	case c2 == 0 && c1 == 0:
-		return nil
-	case c2 == 0:
-		roots = append(roots, -c0/c1)
-	default:
-		d := c1*c1 - 4*c2*c0
-		if d < 0 {
-			return nil
-		}
-		// The root free of cancellation, then the other from the product.
-		q := -0.5 * (c1 + math.Copysign(math.Sqrt(d), c1))
-		roots = append(roots, q/c2)
-		if q != 0 {
-			roots = append(roots, c0/q)
+	case math.Abs(a) <= fibreTie*math.Abs(b):
+		return 1
+	case (a > 0) == (b > 0):
+		return 1
+	}
+	return -1
+}
+
+// elementInterval sets v to the fields of element e: the polynomials in ξ
+// of the interpolation InElement evaluates, from the end displacements and
+// the derivatives the hierarchy carried down (the deflection from its
+// Taylor data at the start, w + θ·s + w″·s²/2 + w‴·s³/6, the same cubic as
+// the Hermite interpolation of the end values but free of its
+// cancellation on fine meshes), and InElement's values at both ends.
+// Coefficients beyond the degrees of v.degree are left as they are (zero).
+func (s *Solution) elementInterval(e int, v *Interval) {
+	el := s.Mesh.Elements[e]
+	sec := &s.sections[el.Segment]
+	h := el.End - el.Start
+	a, _ := s.ends(e)
+	g := s.fields[e]
+	v.Start, v.Length = el.Start, h
+	v.solution, v.element = s, e
+	p := &v.poly
+	p[QAxialDisplacement][0] = a[Axial]
+	p[QAxialDisplacement][1] = s.Displacement[e+1][Axial] - a[Axial] + 4*g.bubble
+	p[QAxialDisplacement][2] = -4 * g.bubble
+	p[QDeflection][0] = a[Transverse]
+	p[QDeflection][1] = h * a[Rotation]
+	p[QDeflection][2] = h * h * g.curvature / 2
+	p[QDeflection][3] = h * h * h * g.third / 6
+	p[QRotation][0] = a[Rotation]
+	p[QRotation][1] = h * g.curvature
+	p[QRotation][2] = h * h * g.third / 2
+	// The constant terms as fieldsAt computes them at ξ = 0, to the bit.
+	p[QAxialForce][0] = sec.axialRigidity * (g.slope + 4*g.bubble/h - sec.thermalStrain)
+	p[QAxialForce][1] = -8 * sec.axialRigidity * g.bubble / h
+	p[QShearForce][0] = sec.flexuralRigidity * g.third
+	p[QBendingMoment][0] = sec.flexuralRigidity * g.curvature
+	p[QBendingMoment][1] = sec.flexuralRigidity * g.third * h
+	// The ends, as fieldsAt computes them at ξ = 0 and 1 (to the bit, but
+	// for the sign of a zero): the displacements are the nodal ones.
+	b := s.Displacement[e+1]
+	start, end := &v.ends[0], &v.ends[1]
+	*start = Fields{X: el.Start, AxialDisplacement: a[Axial], Deflection: a[Transverse], Rotation: a[Rotation],
+		AxialForce: p[QAxialForce][0], ShearForce: p[QShearForce][0], BendingMoment: p[QBendingMoment][0]}
+	*end = Fields{X: el.Start + h, AxialDisplacement: b[Axial], Deflection: b[Transverse], Rotation: b[Rotation],
+		AxialForce:    sec.axialRigidity * (g.slope + -4*g.bubble/h - sec.thermalStrain),
+		ShearForce:    p[QShearForce][0],
+		BendingMoment: sec.flexuralRigidity * (g.curvature + g.third*h)}
+	sec.stresses(start)
+	sec.stresses(end)
+	// The stresses' constant terms are the start's; their slopes follow
+	// from the ends' difference, the stresses being linear here.
+	p[QAxialStress][0], p[QAxialStress][1] = start.AxialStress, end.AxialStress-start.AxialStress
+	p[QBendingStress][0], p[QBendingStress][1] = start.BendingStress, end.BendingStress-start.BendingStress
+	v.endsKnown, v.known = true, 0
+}
+
+// Varies says how quantity q varies inside the elements of s, as the
+// formulation that carries it says (the bar for u, N and N/A, the beam for
+// w, θ, V, M and Mc/I); Degree −1 for the combined stress, which is not one
+// polynomial.
+func (s *Solution) Varies(q Quantity) Variation {
+	bar, beam := s.Model.Formulations()
+	if v := bar.Varies(q); v.Degree >= 0 {
+		return v
+	}
+	return beam.Varies(q)
+}
+
+// degrees are the degrees of the polynomial quantities inside the elements
+// of s; a quantity no formulation gives one for is taken as of the largest.
+func (s *Solution) degrees() [polynomialQuantities]int {
+	var d [polynomialQuantities]int
+	for q := range d {
+		d[q] = s.Varies(Quantity(q)).Degree
+		if d[q] < 0 {
+			d[q] = polynomialTerms - 1
 		}
 	}
-	out := roots[:0]
-	for _, r := range roots {
-		if r > 0 && r < 1 {
-			out = append(out, r)
-		}
+	return d
+}
+
+// values are the quantities of f indexed by Quantity.
+func (f *Fields) values() [quantityCount]float64 {
+	return [quantityCount]float64{
+		QAxialDisplacement: f.AxialDisplacement, QDeflection: f.Deflection, QRotation: f.Rotation,
+		QAxialForce: f.AxialForce, QShearForce: f.ShearForce, QBendingMoment: f.BendingMoment,
+		QAxialStress: f.AxialStress, QBendingStress: f.BendingStress, QCombinedStress: f.CombinedStress,
 	}
-	return out
 }
 
 // ends are element e's end displacements as the element sees them: at the

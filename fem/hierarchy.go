@@ -77,7 +77,7 @@ type stretchRefiner struct {
 	// releasedNode is the stretch's first node when it starts at a hinge
 	// (its own start rotation differs from the node's), else −1.
 	releasedNode int
-	energy     float64 // twice the strain energy, J
+	energy       float64 // twice the strain energy, J
 	// poison stays 0 while every result read off the elements
 	// (displacements, actions, stresses) is finite and turns NaN at the
 	// first that is not: it sums v·0, which is NaN for an infinite or NaN v.

@@ -1,10 +1,6 @@
 package fem
 
-import (
-	"math"
-
-	"gonum.org/v1/gonum/integrate/quad"
-)
+import "math"
 
 // ErrorNorms measure how far a finite element solution is from the exact one.
 //
@@ -20,293 +16,292 @@ import (
 type ErrorNorms struct {
 	MaxDeflection     float64 // max |w_h − w| over the member, m
 	MaxAxial          float64 // max |u_h − u|, m
-	MaxStress         float64 // max |σ_h − σ| of the combined stress, Pa
+	MaxStress         float64 // max |σ_h − σ| of the combined stress, Pa (see Comparison)
 	MaxStressRelative float64 // MaxStress / max |σ|
 	RelativeL2        float64 // ‖(u_h,w_h) − (u,w)‖₂ / ‖(u,w)‖₂
 	RelativeEnergy    float64 // energy norm of the error / energy norm of the exact solution
 }
 
-// ComparePoints is the number of intervals each element is sampled in for
-// the maximum errors; both element ends are included, each seen from inside
-// its element. Eight resolves the quintic exact deflection between the
-// nodes well inside 1 %.
-const ComparePoints = 8
-
-// gaussPoints integrates polynomials up to degree 2·6 − 1 = 11 exactly: the
-// squared error of a quintic deflection has degree 10.
-const gaussPoints = 6
-
 // negligible is the relative size below which an exact measure counts as zero.
 const negligible = 1e-9
 
-// ComparedPoint is one of the points where Compare reads both solutions.
-type ComparedPoint struct {
-	X       float64 // m
-	Element int     // index in Mesh.Elements of the element the point is seen from
-	FE      Fields  // the finite element fields there
-	// Exact holds the exact fields there, equal to Exact.At on the same side
-	// to round-off; zero when there is no exact solution.
-	Exact Fields
-}
-
 // Compare measures the error of s against e, the exact solution of the same
-// model. Maxima come from ComparePoints+1 points per element; the L2 and
-// energy norms from Gauss–Legendre quadrature per element, exact for the
-// polynomial fields involved because every key point of the model is a node.
-// The energy norm is sqrt(∫ EA·(ε_h − ε)² + EI·(κ_h − κ)² dx) with ε = u' − αΔT
-// and κ = w″, computed as (N_h − N)²/EA + (M_h − M)²/EI. A nil argument gives
-// the zero value.
-func Compare(s *Solution, e *Exact) ErrorNorms { return CompareVisiting(s, e, nil) }
+// model, in one walk over the elements (see Comparison). A nil argument
+// gives the zero value.
+func Compare(s *Solution, e *Exact) ErrorNorms {
+	c := NewComparison(s, e)
+	if c == nil {
+		return ErrorNorms{}
+	}
+	Walk(s, e, c)
+	return c.Norms()
+}
 
-// CompareVisiting is Compare that also shows visit, when not nil, each point
-// the maxima are taken at, in order along the member: ComparePoints+1 per
-// element, both ends included and each seen from inside its element. Checks
-// that need both solutions at those points read them there at no further
-// cost. With e nil it visits the finite element fields alone (Exact zero)
-// and returns the zero value. The point is reused between calls: copy what
-// is kept. visit is called on the caller's goroutine.
+// Comparison measures the error of a finite element solution against the
+// exact solution of the same model in a walk over the elements (a
+// Visitor), in closed form: on each element both solutions are polynomials
+// (Interval), so the largest errors are taken at the ends and at the roots
+// of the derivative of their difference, and the L2 and energy norms are
+// integrated by Gauss–Legendre rules exact for the degrees involved (every
+// key point of the model is a node). The energy norm is
+// sqrt(∫ EA·(ε_h − ε)² + EI·(κ_h − κ)² dx) with ε = u' − αΔT and κ = w″,
+// computed as (N_h − N)²/EA + (M_h − M)²/EI. The measures of the exact
+// solution alone are taken once, stretch by stretch, by NewComparison.
 //
-// Each point is evaluated in its own element, and the exact solution on the
-// stretch holding the element (elements never cross a key point), so nothing
-// is searched for. The maxima and the integrals are independent walks over
-// the elements and run at once, the integrals on a second goroutine.
-func CompareVisiting(s *Solution, e *Exact, visit func(*ComparedPoint)) ErrorNorms {
-	var out ErrorNorms
-	if s == nil {
-		return out
-	}
-	if e == nil || len(e.stretches) == 0 {
-		if visit != nil {
-			var p ComparedPoint
-			for i, el := range s.Mesh.Elements {
-				p.Element = i
-				for k := 0; k <= ComparePoints; k++ {
-					p.X = comparePoint(el, k)
-					p.FE = s.InElement(i, p.X)
-					visit(&p)
-				}
-			}
-		}
-		return out
-	}
-	c := comparison{solution: s, exact: make([]stretchPolynomials, len(e.stretches))}
-	tolerance := mergeTolerance * e.keys[len(e.keys)-1]
-	for j := range c.exact {
-		c.exact[j] = newStretchPolynomials(&e.stretches[j], tolerance)
-	}
-	integrals := make(chan errorIntegrals, 1)
-	go func() { integrals <- c.integrals() }()
-	m := c.maxima(visit)
-	in := <-integrals
-	out.MaxDeflection, out.MaxAxial, out.MaxStress = m.deflection, m.axial, m.stress
-	out.MaxStressRelative = relativeError(m.stress, m.exactStress, m.exactStressTerms, in.stressTermsFE)
-	out.RelativeL2 = relativeError(math.Sqrt(in.dispErr), math.Sqrt(in.disp), math.Sqrt(in.disp), math.Sqrt(in.dispFE))
-	out.RelativeEnergy = relativeError(math.Sqrt(in.energyErr), math.Sqrt(in.energy), math.Sqrt(in.energyTerms), math.Sqrt(in.energyTermsFE))
-	return out
-}
-
-// comparison holds a solution and the exact one, stretch by stretch, for
-// the walks of CompareVisiting; both walks only read it.
-type comparison struct {
+// The stress error compares the finite element combined stress σ_h with
+// the exact stress on the same fibre, the one σ_h is taken at (the larger
+// of the finite element solution's two). Wherever both solutions find the
+// same fibre the larger this is the difference of their combined stresses;
+// where the axial stress changes sign under bending, the larger fibre
+// switches, and two fibres chosen independently would differ by 2|Mc/I| on
+// the sliver between the two solutions' switches, however fine the mesh.
+type Comparison struct {
 	solution *Solution
-	exact    []stretchPolynomials
+	exact    *exactMeasures // shared with forks, read only
+	maxima   errorMaxima
+	sums     errorIntegrals
 }
 
-// stretchFor returns the exact stretch holding el, advancing *j, which the
-// elements of one walk move along the member.
-func (c *comparison) stretchFor(el Element, j *int) *stretchPolynomials {
-	for mid := el.Start + (el.End-el.Start)/2; *j+1 < len(c.exact) && c.exact[*j+1].start <= mid; {
-		*j++
-	}
-	return &c.exact[*j]
-}
-
-// errorMaxima are the largest errors and the sizes they are judged against.
+// errorMaxima are the largest errors found so far.
 type errorMaxima struct {
 	deflection, axial, stress float64 // max |w_h − w| (m), |u_h − u| (m), |σ_h − σ| (Pa)
-	exactStress               float64 // max |σ|, Pa
-	exactStressTerms          float64 // max of the sizes of the terms that make σ, Pa
+	stressAt                  float64 // where |σ_h − σ| is largest, m
 }
 
-// maxima takes the largest errors at the ComparePoints+1 points of every
-// element, showing each point to visit.
-func (c *comparison) maxima(visit func(*ComparedPoint)) errorMaxima {
-	var out errorMaxima
-	var p ComparedPoint
-	j := 0
-	for i, el := range c.solution.Mesh.Elements {
-		ex := c.stretchFor(el, &j)
-		sec := c.solution.Model.Segments[el.Segment].Section
-		p.Element = i
-		for k := 0; k <= ComparePoints; k++ {
-			x := comparePoint(el, k)
-			p.X, p.FE = x, c.solution.InElement(i, x)
-			axialTerms, bendingTerms := ex.at(x, &p.Exact)
-			f, g := &p.FE, &p.Exact
-			out.deflection = math.Max(out.deflection, math.Abs(f.Deflection-g.Deflection))
-			out.axial = math.Max(out.axial, math.Abs(f.AxialDisplacement-g.AxialDisplacement))
-			out.stress = math.Max(out.stress, math.Abs(f.CombinedStress-g.CombinedStress))
-			out.exactStress = math.Max(out.exactStress, math.Abs(g.CombinedStress))
-			out.exactStressTerms = math.Max(out.exactStressTerms, axialTerms/sec.Area+bendingTerms*sec.FibreDistance/sec.SecondMoment)
-			if visit != nil {
-				visit(&p)
+// errorIntegrals are the squared integrals over the elements seen: of the
+// displacement error and of the energy of the error.
+type errorIntegrals struct {
+	dispErr, energyErr float64
+}
+
+// exactMeasures are the sizes of the exact solution that the relative
+// errors divide by: max |σ| and max of the sizes of the terms that make σ
+// (Pa), the squared L2 norm of the displacements, the energy and the
+// energy of the terms that make N and M.
+type exactMeasures struct {
+	stress, stressTerms       float64
+	disp, energy, energyTerms float64
+}
+
+// NewComparison is an empty comparison of s with e, which has measured e
+// alone; nil when either is nil.
+func NewComparison(s *Solution, e *Exact) *Comparison {
+	if s == nil || e == nil {
+		return nil
+	}
+	c := &Comparison{solution: s, exact: &exactMeasures{}}
+	for j, v := range e.Intervals() {
+		c.exact.add(&e.stretches[j], &v)
+	}
+	return c
+}
+
+// add measures the exact solution on stretch st, whose fields are v.
+func (m *exactMeasures) add(st *exactStretch, v *Interval) {
+	lo, hi := v.Range(QCombinedStress)
+	m.stress = math.Max(m.stress, math.Max(math.Abs(lo.Value), math.Abs(hi.Value)))
+	// The sizes Σ|term| of the terms that make N (the thermal term included)
+	// and M: round-off in them is relative to these. Their coefficients are
+	// not negative, so they are largest at the stretch's end.
+	var axial, bending Polynomial
+	ea, ei := st.bar.stiffness, st.beam.stiffness
+	for k := range 3 {
+		axial[k] = math.Abs(ea / st.length * float64(k+1) * st.bar.coeff[k+1])
+	}
+	axial[0] += math.Abs(st.bar.offset)
+	for k := range 4 {
+		bending[k] = math.Abs(ei / (st.length * st.length) * float64((k+1)*(k+2)) * st.beam.coeff[k+2])
+	}
+	m.stressTerms = math.Max(m.stressTerms, axial.at(2, 1)/st.area+bending.at(3, 1)*st.fibre/st.secondMoment)
+	h := st.length
+	u, w := &v.poly[QAxialDisplacement], &v.poly[QDeflection]
+	for _, q := range gauss6 { // w² is of degree 10
+		uq, wq := u.at(3, q.xi), w.at(5, q.xi)
+		m.disp += q.w * h * (uq*uq + wq*wq)
+	}
+	n, mo := &v.poly[QAxialForce], &v.poly[QBendingMoment]
+	for _, q := range gauss4 { // M² and the terms² are of degree 6 at most
+		nq, mq := n.at(2, q.xi), mo.at(3, q.xi)
+		at, bt := axial.at(2, q.xi), bending.at(3, q.xi)
+		m.energy += q.w * h * (nq*nq/ea + mq*mq/ei)
+		m.energyTerms += q.w * h * (at*at/ea + bt*bt/ei)
+	}
+}
+
+// Visit compares the two solutions on one element. A largest error is
+// sought on the element only where a bound of it (MaxAbsBound) could beat
+// the largest so far.
+func (c *Comparison) Visit(v *ElementView) {
+	if !v.HasExact {
+		return
+	}
+	fe, ex := &v.FE, &v.Exact
+	var du, dw, dn, dm Polynomial
+	for k := range du {
+		du[k] = fe.poly[QAxialDisplacement][k] - ex.poly[QAxialDisplacement][k]
+		dw[k] = fe.poly[QDeflection][k] - ex.poly[QDeflection][k]
+		dn[k] = fe.poly[QAxialForce][k] - ex.poly[QAxialForce][k]
+		dm[k] = fe.poly[QBendingMoment][k] - ex.poly[QBendingMoment][k]
+	}
+	// The degrees of the differences are those of the exact fields, which
+	// are at least the finite element ones for the elements of fem.
+	m := &c.maxima
+	m.axial = max(m.axial, maxAbs(&du, exactDegrees[QAxialDisplacement]).value)
+	// The deflection error is a quintic, whose extremes take a search.
+	if dw.MaxAbsBound() > m.deflection {
+		m.deflection = max(m.deflection, maxAbs(&dw, exactDegrees[QDeflection]).value)
+	}
+	if e := combinedError(fe, ex); e.value > m.stress {
+		m.stress, m.stressAt = e.value, fe.X(e.xi)
+	}
+
+	h := fe.Length
+	sec := &c.solution.sections[v.Segment]
+	in := &c.sums
+	// The differences are of the exact fields' degrees (exactDegrees): u
+	// cubic, w quintic, N quadratic, M cubic.
+	disp := 0.0
+	for _, q := range gauss6 { // dw² is of degree 10
+		uq, wq := du.at3(q.xi), dw.At(q.xi)
+		disp += q.w * (uq*uq + wq*wq)
+	}
+	in.dispErr += h * disp
+	iea, iei := 1/sec.axialRigidity, 1/sec.flexuralRigidity
+	energy := 0.0
+	for _, q := range gauss4 { // dN² and dM² are of degree 6 at most
+		nq, mq := dn.at2(q.xi), dm.at3(q.xi)
+		energy += q.w * (nq*nq*iea + mq*mq*iei)
+	}
+	in.energyErr += h * energy
+}
+
+func (c *Comparison) Fork() Visitor {
+	return &Comparison{solution: c.solution, exact: c.exact}
+}
+
+func (c *Comparison) Join(later Visitor) {
+	d := later.(*Comparison)
+	m, n := &c.maxima, &d.maxima
+	m.deflection, m.axial = math.Max(m.deflection, n.deflection), math.Max(m.axial, n.axial)
+	if n.stress > m.stress {
+		m.stress, m.stressAt = n.stress, n.stressAt
+	}
+	c.sums.dispErr += d.sums.dispErr
+	c.sums.energyErr += d.sums.energyErr
+}
+
+// Norms are the error norms of the elements seen against the exact solution.
+func (c *Comparison) Norms() ErrorNorms {
+	m, in, ex := &c.maxima, &c.sums, c.exact
+	var fe *feMeasures // taken only if an exact measure vanishes
+	own := func() *feMeasures {
+		if fe == nil {
+			fe = c.solution.ownMeasures()
+		}
+		return fe
+	}
+	return ErrorNorms{
+		MaxDeflection: m.deflection,
+		MaxAxial:      m.axial,
+		MaxStress:     m.stress,
+		MaxStressRelative: relativeError(m.stress, ex.stress, ex.stressTerms,
+			func() float64 { return own().stressTerms }),
+		RelativeL2: relativeError(math.Sqrt(in.dispErr), math.Sqrt(ex.disp), math.Sqrt(ex.disp),
+			func() float64 { return math.Sqrt(own().disp) }),
+		RelativeEnergy: relativeError(math.Sqrt(in.energyErr), math.Sqrt(ex.energy), math.Sqrt(ex.energyTerms),
+			func() float64 { return math.Sqrt(own().energyTerms) }),
+	}
+}
+
+// WorstStress is where the largest error of the combined stress was found,
+// m; the first such place along the member.
+func (c *Comparison) WorstStress() float64 { return c.maxima.stressAt }
+
+// feMeasures are the finite element solution's own sizes, which the
+// relative errors are judged against where the exact solution's vanish:
+// the squared L2 norm of its displacements, the energy of the terms that
+// make its N and M, and the largest stress those terms make.
+type feMeasures struct {
+	disp, energyTerms, stressTerms float64
+}
+
+// ownMeasures walks the elements of s for its own measures.
+func (s *Solution) ownMeasures() *feMeasures {
+	var out feMeasures
+	for v := range s.Elements(nil, 0, len(s.fields)) {
+		fe := &v.FE
+		h := fe.Length
+		u, w := &fe.poly[QAxialDisplacement], &fe.poly[QDeflection]
+		for _, q := range gauss4 { // u_h² and w_h² are of degree 6 at most
+			uq, wq := u.at(fe.degree[QAxialDisplacement], q.xi), w.at(fe.degree[QDeflection], q.xi)
+			out.disp += q.w * h * (uq*uq + wq*wq)
+		}
+		sec := &s.sections[v.Segment]
+		na, ma := s.actionMagnitudes(v.Element)
+		out.energyTerms += (na*na/sec.axialRigidity + ma*ma/sec.flexuralRigidity) * h
+		out.stressTerms = math.Max(out.stressTerms, na/sec.area+ma*sec.fibre/sec.secondMoment)
+	}
+	return &out
+}
+
+// combinedError is the largest |σ_h − σ| of the combined stress on an
+// element, fe and ex its finite element and exact fields, and where (ξ),
+// with σ the exact stress on the fibre σ_h is taken at. The element is cut
+// where the finite element solution's larger fibre may change
+// (pieces.splitFibres); on each piece the error is σa_h − σa ± (σb_h − σb),
+// one polynomial whose extremes are at the piece's ends (both sides of a
+// cut count) or at the roots of its derivative.
+func combinedError(fe, ex *Interval) extremum {
+	fa, fb := &fe.poly[QAxialStress], &fe.poly[QBendingStress]
+	var da, db Polynomial
+	for k := range da {
+		da[k], db[k] = fa[k]-ex.poly[QAxialStress][k], fb[k]-ex.poly[QBendingStress][k]
+	}
+	d := max(fe.degree[QAxialStress], fe.degree[QBendingStress], ex.degree[QAxialStress], ex.degree[QBendingStress])
+	dfe := max(fe.degree[QAxialStress], fe.degree[QBendingStress])
+	var ps pieces
+	ps.reset()
+	ps.splitFibres(fa, fb, dfe)
+	best := extremum{value: -1}
+	for i := 0; i < ps.n; i++ {
+		x0, x1 := ps.breaks[i], ps.breaks[i+1]
+		mid := (x0 + x1) / 2
+		g := combine(1, &da, fibreSign(fa.at(dfe, mid), fb.at(dfe, mid)), &db)
+		if ps.n == 1 {
+			return maxAbs(&g, d)
+		}
+		take := func(xi float64) {
+			if v := math.Abs(g.at(d, xi)); v > best.value {
+				best = extremum{xi, v}
 			}
 		}
-	}
-	return out
-}
-
-// errorIntegrals are the squared integrals of the norms: displacement error,
-// exact and finite element displacements; energy of the error, of the exact
-// and of the finite element solution, of the terms that make the exact N
-// and M and of those of the finite element ones; with the largest stress the
-// finite element terms make.
-type errorIntegrals struct {
-	dispErr, disp, dispFE                         float64
-	energyErr, energy, energyTerms, energyTermsFE float64
-	stressTermsFE                                 float64
-}
-
-// integrals integrates the squared errors element by element by
-// Gauss–Legendre quadrature.
-func (c *comparison) integrals() errorIntegrals {
-	var gauss [gaussPoints]struct{ xi, w float64 }
-	xs, ws := make([]float64, gaussPoints), make([]float64, gaussPoints)
-	quad.Legendre{}.FixedLocations(xs, ws, 0, 1)
-	for q := range gauss {
-		gauss[q].xi, gauss[q].w = xs[q], ws[q]
-	}
-	var out errorIntegrals
-	var g Fields
-	j := 0
-	for i, el := range c.solution.Mesh.Elements {
-		ex := c.stretchFor(el, &j)
-		h := el.End - el.Start
-		seg := c.solution.Model.Segments[el.Segment]
-		sec := seg.Section
-		ea := seg.Material.Elastic * sec.Area
-		ei := seg.Material.Elastic * sec.SecondMoment
-		na, ma := c.solution.actionMagnitudes(el)
-		out.energyTermsFE += (na*na/ea + ma*ma/ei) * h
-		out.stressTermsFE = math.Max(out.stressTermsFE, na/sec.Area+ma*sec.FibreDistance/sec.SecondMoment)
-		for _, q := range gauss {
-			x, w := el.Start+h*q.xi, h*q.w
-			f := c.solution.InElement(i, x)
-			axialTerms, bendingTerms := ex.at(x, &g)
-			du, dw := f.AxialDisplacement-g.AxialDisplacement, f.Deflection-g.Deflection
-			dn, dm := f.AxialForce-g.AxialForce, f.BendingMoment-g.BendingMoment
-			out.dispErr += w * (du*du + dw*dw)
-			out.disp += w * (g.AxialDisplacement*g.AxialDisplacement + g.Deflection*g.Deflection)
-			out.dispFE += w * (f.AxialDisplacement*f.AxialDisplacement + f.Deflection*f.Deflection)
-			out.energyErr += w * (dn*dn/ea + dm*dm/ei)
-			out.energy += w * (g.AxialForce*g.AxialForce/ea + g.BendingMoment*g.BendingMoment/ei)
-			out.energyTerms += w * (axialTerms*axialTerms/ea + bendingTerms*bendingTerms/ei)
+		take(x0)
+		dg := g.Derivative()
+		var r [polynomialTerms - 1]float64
+		for _, xi := range r[:dg.roots(&r)] {
+			if xi > x0 && xi < x1 {
+				take(xi)
+			}
 		}
+		take(x1)
 	}
-	return out
-}
-
-// comparePoint is the k-th of the ComparePoints+1 points of element el.
-func comparePoint(el Element, k int) float64 {
-	if k == ComparePoints {
-		return el.End
-	}
-	return el.Start + (el.End-el.Start)*float64(k)/ComparePoints
-}
-
-// stretchPolynomials are the exact fields on one stretch as polynomials in
-// t = (x − start)/length, with differentiation, rigidities and powers of the
-// length already applied, so a point costs one pass of Horner's rule over
-// all of them.
-type stretchPolynomials struct {
-	start, length, inverseLength float64 // m, m, 1/m
-	tolerance                    float64 // m: closer to an end than this is at the end
-	axialOffset                  float64 // −EA·αΔT, N
-	area, fibre, secondMoment    float64 // A (m²), c (m), I (m⁴)
-	// coeff[k][q] multiplies t^k in quantity q (see the exact* indices).
-	coeff [6][exactQuantities]float64
-}
-
-// Indices of the quantities in stretchPolynomials.coeff: u, w, θ, N without
-// its thermal offset, V, M, and the sizes Σ|term| of the terms that make N
-// (offset apart) and M.
-const (
-	exactAxial = iota
-	exactDeflection
-	exactRotation
-	exactAxialForce
-	exactShear
-	exactMoment
-	exactAxialTerms
-	exactMomentTerms
-	exactQuantities
-)
-
-func newStretchPolynomials(s *exactStretch, tolerance float64) stretchPolynomials {
-	h := s.length
-	p := stretchPolynomials{start: s.start, length: h, inverseLength: 1 / h, tolerance: tolerance,
-		axialOffset: s.bar.offset, area: s.area, fibre: s.fibre, secondMoment: s.secondMoment}
-	put := func(q int, c []float64, d int, scale float64) {
-		for k := d; k < len(c); k++ {
-			p.coeff[k-d][q] = scale * c[k] * fallingFactorial(k, d)
-		}
-	}
-	put(exactAxial, s.bar.coeff, 0, 1)
-	put(exactDeflection, s.beam.coeff, 0, 1)
-	put(exactRotation, s.beam.coeff, 1, 1/h)
-	put(exactAxialForce, s.bar.coeff, 1, s.bar.stiffness/h)
-	put(exactShear, s.beam.coeff, 3, s.beam.stiffness/(h*h*h))
-	put(exactMoment, s.beam.coeff, 2, s.beam.stiffness/(h*h))
-	for k := range p.coeff {
-		p.coeff[k][exactAxialTerms] = math.Abs(p.coeff[k][exactAxialForce])
-		p.coeff[k][exactMomentTerms] = math.Abs(p.coeff[k][exactMoment])
-	}
-	return p
-}
-
-// at writes the exact fields at x, which must lie on the stretch, to f and
-// returns the sizes of the terms that make N and M there (Σ|term|, not
-// |Σ term|, the thermal term included): round-off in them is relative to these. Within
-// the merge tolerance of an end, x counts as that end.
-func (p *stretchPolynomials) at(x float64, f *Fields) (axialTerms, bendingTerms float64) {
-	t := min(max((x-p.start)*p.inverseLength, 0), 1)
-	if x-p.start <= p.tolerance {
-		t = 0
-	} else if p.start+p.length-x <= p.tolerance {
-		t = 1
-	}
-	// One accumulator per quantity keeps them all in registers.
-	var u, w, theta, n, v, m, nTerms, mTerms float64
-	for k := len(p.coeff) - 1; k >= 0; k-- {
-		c := &p.coeff[k]
-		u, w, theta = u*t+c[exactAxial], w*t+c[exactDeflection], theta*t+c[exactRotation]
-		n, v, m = n*t+c[exactAxialForce], v*t+c[exactShear], m*t+c[exactMoment]
-		nTerms, mTerms = nTerms*t+c[exactAxialTerms], mTerms*t+c[exactMomentTerms]
-	}
-	f.X = p.start + t*p.length
-	f.AxialDisplacement, f.Deflection, f.Rotation = u, w, theta
-	f.AxialForce, f.ShearForce, f.BendingMoment = n+p.axialOffset, v, m
-	f.AxialStress = f.AxialForce / p.area
-	f.BendingStress = f.BendingMoment * p.fibre / p.secondMoment
-	f.CombinedStress = extremeFibreStress(f.AxialStress, f.BendingStress)
-	return nTerms + math.Abs(p.axialOffset), mTerms
+	return best
 }
 
 // relativeError is err/exact, unless exact is negligible against
 // exactTerms, the same measure of the terms it sums (then it is zero to
 // round-off and the ratio means nothing). In that case the error is judged
-// against scale, the larger of exactTerms and feTerms: 0 when it is at
-// round-off level, else err/scale. See ErrorNorms.
-func relativeError(err, exact, exactTerms, feTerms float64) float64 {
-	scale := math.Max(exactTerms, feTerms)
-	switch {
-	case exact > negligible*exactTerms && exact > 0:
+// against scale, the larger of exactTerms and feTerms (asked for only
+// then): 0 when it is at round-off level, else err/scale. See ErrorNorms.
+func relativeError(err, exact, exactTerms float64, feTerms func() float64) float64 {
+	if exact > negligible*exactTerms && exact > 0 {
 		return err / exact
-	case err <= negligible*scale:
-		return 0
-	default:
-		return err / scale
 	}
+	scale := math.Max(exactTerms, feTerms())
+	if err <= negligible*scale {
+		return 0
+	}
+	return err / scale
 }
 
 // actionMagnitudes bounds the sizes of the terms the interpolation of element

@@ -15,10 +15,14 @@ import (
 // testdata/compare_regression.json holds the norms Compare gave on every
 // testdata model, each on its own mesh, on 101 linear-bar elements and on 25
 // quadratic-bar elements, recorded from the implementation that read both
-// solutions with At at every point, before Compare was rewritten to walk the
-// elements once with their own interpolation. The rewrite must agree to 1e-9
-// relative; norms at round-off level (meshes that are exact) only need to stay
-// at round-off of the solution's own size.
+// solutions with At at nine points of every element, before Compare was
+// rewritten to walk the elements once and then to take the largest errors
+// in closed form. The norms, by quadrature exact either way, must agree to
+// 1e-9 relative; the largest errors may only have grown, by no more than
+// nine samples per element can miss of a peak between them (a few per
+// cent at most: TestPropertyCompareAgainstSampling measures the closed
+// forms against a dense sampling). Values at round-off level (meshes that
+// are exact) only need to stay at round-off of the solution's own size.
 func TestCompareUnchangedByRewrite(t *testing.T) {
 	data, err := os.ReadFile(filepath.Join("testdata", "compare_regression.json"))
 	if err != nil {
@@ -63,15 +67,21 @@ func TestCompareUnchangedByRewrite(t *testing.T) {
 		for _, q := range []struct {
 			name            string
 			got, want, unit float64
+			maximum         bool
 		}{
-			{"MaxDeflection", got.MaxDeflection, want.MaxDeflection, w},
-			{"MaxAxial", got.MaxAxial, want.MaxAxial, u},
-			{"MaxStress", got.MaxStress, want.MaxStress, stress},
-			{"MaxStressRelative", got.MaxStressRelative, want.MaxStressRelative, 1},
-			{"RelativeL2", got.RelativeL2, want.RelativeL2, 1},
-			{"RelativeEnergy", got.RelativeEnergy, want.RelativeEnergy, 1},
+			{"MaxDeflection", got.MaxDeflection, want.MaxDeflection, w, true},
+			{"MaxAxial", got.MaxAxial, want.MaxAxial, u, true},
+			{"MaxStress", got.MaxStress, want.MaxStress, stress, true},
+			{"MaxStressRelative", got.MaxStressRelative, want.MaxStressRelative, 1, true},
+			{"RelativeL2", got.RelativeL2, want.RelativeL2, 1, false},
+			{"RelativeEnergy", got.RelativeEnergy, want.RelativeEnergy, 1, false},
 		} {
-			if math.Abs(q.got-q.want) > 1e-9*math.Abs(q.want)+1e-12*q.unit {
+			floor := 1e-9*math.Abs(q.want) + 1e-12*q.unit
+			grown := 0.0
+			if q.maximum {
+				grown = 0.05 * math.Abs(q.want)
+			}
+			if q.got < q.want-floor || q.got > q.want+floor+grown {
 				t.Errorf("%s, %+v: %s = %.12g, recorded %.12g", c.File, c.Mesh, q.name, q.got, q.want)
 			}
 		}

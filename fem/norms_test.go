@@ -156,8 +156,14 @@ func TestRelativeError(t *testing.T) {
 		{"exact zero, real error", 3, 0, 0, 3, 1},
 		{"exact negligible, real error against the terms", 2e4, 1e-8, 8e4, 2e4, 0.25},
 	} {
-		if got := relativeError(c.err, c.exact, c.exactTerms, c.feTerms); math.Abs(got-c.want) > 1e-15 {
+		asked := false
+		feTerms := func() float64 { asked = true; return c.feTerms }
+		if got := relativeError(c.err, c.exact, c.exactTerms, feTerms); math.Abs(got-c.want) > 1e-15 {
 			t.Errorf("%s: relativeError = %g, want %g", c.name, got, c.want)
+		}
+		// The finite element terms are worked out only when the exact measure is negligible.
+		if ordinary := c.exact > 1e-9*c.exactTerms && c.exact > 0; asked == ordinary {
+			t.Errorf("%s: finite element terms asked for: %v", c.name, asked)
 		}
 	}
 }

@@ -293,4 +293,3 @@ func equilibrium(applied [3]float64, reactions []Reaction) Equilibrium {
 	}
 	return q
 }
-

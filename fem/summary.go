@@ -57,61 +57,130 @@ type Summary struct {
 	Warnings    []string           `json:"warnings"`
 }
 
-// summarySamples bounds the work of finding extremes on very fine meshes:
-// about this many points in all, and never fewer than the element ends.
-const summarySamples = 20000
+// extremes gathers the largest and smallest value of every quantity along
+// the member from the finite element fields, in closed form element by
+// element (Interval.Range); a Visitor. At a node where a field jumps each
+// element's own side counts, so the extreme is reported on the side where
+// it is reached.
+type extremes struct {
+	lo, hi [quantityCount]Point
+	seen   bool
+}
 
-// extremes walks the elements once, a few points each (only the ends on fine
-// meshes), and keeps the running largest and smallest value of every
-// reported quantity, so its memory does not grow with the mesh.
-func extremes(s *Solution) []Extreme {
-	qs := Quantities()
-	out := make([]Extreme, len(qs))
-	for i, q := range qs {
-		out[i] = Extreme{Quantity: q, Unit: q.Info().SI, Max: math.Inf(-1), Min: math.Inf(1)}
+func newExtremes() *extremes {
+	x := &extremes{}
+	for q := range x.lo {
+		x.lo[q].Value, x.hi[q].Value = math.Inf(1), math.Inf(-1)
 	}
-	n := len(s.Mesh.Elements)
-	if n == 0 || len(s.fields) == 0 {
-		for i := range out {
-			out[i].Max, out[i].Min = 0, 0
+	return x
+}
+
+func (x *extremes) Visit(v *ElementView) {
+	x.seen = true
+	fe := &v.FE
+	start, end := fe.End(0).values(), fe.End(1).values()
+	x0, x1 := fe.Start, fe.Start+fe.Length
+	for q := range Quantity(quantityCount) {
+		if q < QCombinedStress && !turnsInside(&fe.poly[q], fe.degree[q]) {
+			// Monotone (linear, say): the ends, start first, as Range would
+			// give them; read here without its bookkeeping.
+			x.take(q, Point{x0, start[q]}, Point{x0, start[q]})
+			x.take(q, Point{x1, end[q]}, Point{x1, end[q]})
+			continue
 		}
-		return out
+		lo, hi := fe.Range(q)
+		x.take(q, lo, hi)
 	}
-	perElement := 1
-	if summarySamples/n > 1 {
-		perElement = min(summarySamples/n, 8)
+}
+
+// take keeps lo and hi where they are beyond the extremes of q so far.
+func (x *extremes) take(q Quantity, lo, hi Point) {
+	if lo.Value < x.lo[q].Value {
+		x.lo[q] = lo
 	}
-	for e, el := range s.Mesh.Elements {
-		for j := 0; j <= perElement; j++ {
-			x := el.Start + (el.End-el.Start)*float64(j)/float64(perElement)
-			if j == perElement {
-				x = s.Mesh.X[e+1]
-			}
-			f := s.InElement(e, x)
-			for i, q := range qs {
-				v := q.Of(&f)
-				if v > out[i].Max {
-					out[i].Max, out[i].XMax = v, f.X
-				}
-				if v < out[i].Min {
-					out[i].Min, out[i].XMin = v, f.X
-				}
-			}
-		}
+	if hi.Value > x.hi[q].Value {
+		x.hi[q] = hi
 	}
-	// The deflection peaks inside elements, where their cubic has zero slope.
-	for i, q := range qs {
-		if q == QDeflection {
-			out[i].XMax, out[i].Max = s.DeflectionExtremum(out[i].XMax, true)
-			out[i].XMin, out[i].Min = s.DeflectionExtremum(out[i].XMin, false)
+}
+
+func (x *extremes) Fork() Visitor { return newExtremes() }
+
+func (x *extremes) Join(later Visitor) {
+	y := later.(*extremes)
+	x.seen = x.seen || y.seen
+	for q := range Quantity(quantityCount) {
+		x.take(q, y.lo[q], y.hi[q])
+	}
+}
+
+// list is the extremes in report order; all zero when no element was seen.
+func (x *extremes) list() []Extreme {
+	out := make([]Extreme, quantityCount)
+	for i, q := range Quantities() {
+		out[i] = Extreme{Quantity: q, Unit: q.Info().SI}
+		if x.seen {
+			out[i].Max, out[i].XMax = x.hi[q].Value, x.hi[q].X
+			out[i].Min, out[i].XMin = x.lo[q].Value, x.lo[q].X
 		}
 	}
 	return out
 }
 
+// Summarizer gathers a Summary in a walk over a solution (a Visitor): the
+// extremes of every quantity and, with an exact solution, the comparison
+// with it. Summarize walks with one; a caller that walks for other
+// consumers as well passes one to Walk beside them.
+type Summarizer struct {
+	solution   *Solution
+	extremes   *extremes
+	comparison *Comparison // nil without an exact solution
+}
+
+// NewSummarizer is an empty Summarizer of s, compared with e when e is not nil.
+func NewSummarizer(s *Solution, e *Exact) *Summarizer {
+	return &Summarizer{solution: s, extremes: newExtremes(), comparison: NewComparison(s, e)}
+}
+
+func (z *Summarizer) Visit(v *ElementView) {
+	z.extremes.Visit(v)
+	if z.comparison != nil {
+		z.comparison.Visit(v)
+	}
+}
+
+func (z *Summarizer) Fork() Visitor {
+	y := &Summarizer{solution: z.solution, extremes: newExtremes()}
+	if z.comparison != nil {
+		y.comparison = z.comparison.Fork().(*Comparison)
+	}
+	return y
+}
+
+func (z *Summarizer) Join(later Visitor) {
+	y := later.(*Summarizer)
+	z.extremes.Join(y.extremes)
+	if z.comparison != nil {
+		z.comparison.Join(y.comparison)
+	}
+}
+
+// Comparison is the comparison with the exact solution gathered so far;
+// nil when there is none.
+func (z *Summarizer) Comparison() *Comparison { return z.comparison }
+
 // Summarize collects reactions, extremes with positions, equilibrium, mesh
-// size and, when e is not nil, the error against the exact solution.
+// size and, when e is not nil, the error against the exact solution, in one
+// walk over the elements.
 func Summarize(s *Solution, e *Exact) Summary {
+	z := NewSummarizer(s, e)
+	Walk(s, e, z)
+	return z.Summary()
+}
+
+// Summary is what the walk gathered, with the reactions, equilibrium, mesh
+// and warnings of the solution.
+func (z *Summarizer) Summary() Summary {
+	s := z.solution
 	var sum Summary
 	for _, r := range s.Reactions {
 		kind := ""
@@ -122,7 +191,7 @@ func Summarize(s *Solution, e *Exact) Summary {
 			Support: r.Support + 1, Kind: kind, X: r.X, Components: components(r.Force),
 		})
 	}
-	sum.Extremes = extremes(s)
+	sum.Extremes = z.extremes.list()
 	eq := s.Equilibrium
 	sum.Equilibrium = EquilibriumSummary{
 		Applied:   components(eq.Applied),
@@ -130,8 +199,8 @@ func Summarize(s *Solution, e *Exact) Summary {
 		Residual:  components(eq.Residual),
 		Relative:  relativeResidual(eq),
 	}
-	if e != nil {
-		norms := Compare(s, e)
+	if z.comparison != nil {
+		norms := z.comparison.Norms()
 		sum.ExactError = &norms
 	}
 	order := int(s.Model.Mesh.BarOrder)

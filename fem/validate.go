@@ -51,11 +51,11 @@ const (
 	// Per key point, with one element per stretch: Solve allocated at most
 	// 1,898 B (key points from 1,000 to 2,000, made of segment breaks,
 	// supports, point loads or load points), Summarize with the exact
-	// solution at most 594 B (from 125 to 250 key points), and the banded
+	// solution at most 1,049 B (from 125 to 250 key points), and the banded
 	// exact solution at most 2,952 B (from 1,000 to 2,000; most for supports,
 	// whose reactions add unknowns). TestMemoryPerStage measures all three.
 	solveBytesPerKeyPoint   = 2500
-	summaryBytesPerKeyPoint = 800
+	summaryBytesPerKeyPoint = 1200
 	exactBytesPerKeyPoint   = 4000
 
 	bytesPerElement  = memoryHeadroom * stagesBytesPerElement

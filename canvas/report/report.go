@@ -69,6 +69,13 @@ type Options struct {
 	// gives 1600 × 1067 pixels for the default size. Calculation sheets keep
 	// their own A4 layout and density (canvas.WriteSheet).
 	DPI float64
+	// CSVPoints is the number of intervals each element is sampled in by
+	// the results table: CSVPoints+1 rows per element, both ends included;
+	// 0 for canvas.DefaultCSVPoints of the mesh.
+	CSVPoints int
+	// Units is the unit system of every product; the zero System for the
+	// project's display units (Export) or the source's (Write).
+	Units units.System
 }
 
 // Defaults of Options and of the results table.
@@ -76,13 +83,14 @@ const (
 	defaultWidth  = 1200
 	defaultHeight = 800
 	defaultDPI    = 96
-	// csvPointsPerElement is how many intervals of each element the results table samples.
-	csvPointsPerElement = 4
 )
 
 func (o Options) withDefaults() (Options, error) {
 	if o.Width < 0 || o.Height < 0 || o.DPI < 0 {
 		return o, fmt.Errorf("export size %g × %g points at %g dpi: give positive numbers (or 0 for the defaults)", o.Width, o.Height, o.DPI)
+	}
+	if o.CSVPoints < 0 || o.CSVPoints > canvas.CSVMaxPoints {
+		return o, fmt.Errorf("%d points per element for the results table: give 1 to %d (or 0 for the default)", o.CSVPoints, canvas.CSVMaxPoints)
 	}
 	if o.Width == 0 {
 		o.Width = defaultWidth
@@ -146,16 +154,21 @@ func Analyse(ctx context.Context, p *storage.Project) (Source, error) {
 }
 
 // Export analyses p (finite elements, exact solution and checks, with the
-// project's check limits) and writes one product of it to w (see Write).
+// project's check limits) and writes one product of it to w (see Write), in
+// the project's display units unless opts.Units names others.
 func Export(ctx context.Context, w io.Writer, p *storage.Project, product string, opts Options) error {
 	if _, ok := ProductExt(product); !ok {
 		return fmt.Errorf("cannot export %q: choose one of %s", product, productList())
 	}
-	src, err := Analyse(ctx, p)
+	r := Request(p, nil)
+	if opts.Units.Name != "" {
+		r.Checks.Units = opts.Units // the checks' messages too
+	}
+	a, err := analysis.Run(ctx, r)
 	if err != nil {
 		return err
 	}
-	return Write(w, src, product, opts)
+	return Write(w, NewSource(p, &a), product, opts)
 }
 
 // Input is the drawing of src: the one place where results become a
@@ -184,8 +197,8 @@ func marks(fs []analysis.Finding) []canvas.Mark {
 	return out
 }
 
-// Write writes one product of src to w, in src's units and with its
-// project's overlays: a drawing ("png", "svg", "pdf"), a calculation sheet
+// Write writes one product of src to w, in src's units (or opts.Units) and
+// with its project's overlays: a drawing ("png", "svg", "pdf"), a calculation sheet
 // ("sheet-pdf", "sheet-png") or the results table ("csv"). A model that
 // cannot be solved still gives a drawing or sheet, with the problem written
 // on it; the results table then cannot be written and Write says why.
@@ -193,6 +206,9 @@ func Write(w io.Writer, src Source, product string, opts Options) error {
 	opts, err := opts.withDefaults()
 	if err != nil {
 		return err
+	}
+	if opts.Units.Name != "" {
+		src.Units = opts.Units
 	}
 	in := Input(src)
 	if len(src.Project.Model.Segments) == 0 {
@@ -213,7 +229,11 @@ func Write(w io.Writer, src Source, product string, opts Options) error {
 		if in.Solution == nil {
 			return fmt.Errorf("there are no results to tabulate: %s", in.Problem)
 		}
-		return canvas.WriteCSV(w, in.Solution, in.Exact, src.Units, csvPointsPerElement)
+		points := opts.CSVPoints
+		if points == 0 {
+			points = canvas.DefaultCSVPoints(len(in.Solution.Mesh.Elements))
+		}
+		return canvas.WriteCSV(w, in.Solution, in.Exact, src.Units, points)
 	}
 	return fmt.Errorf("cannot export %q: choose one of %s", product, productList())
 }

@@ -1,15 +1,18 @@
 package main
 
 import (
-	"bytes"
+	"bufio"
 	"context"
+	"flag"
 	"fmt"
 	"io"
 	"os"
 	"path/filepath"
 	"strings"
 
+	"stave/canvas"
 	"stave/canvas/report"
+	"stave/fem/units"
 	"stave/storage"
 )
 
@@ -22,6 +25,8 @@ func exportCommand(args []string, stdout io.Writer) error {
 	dpi := fs.Float64("dpi", 0, "pixel density of PNG output (default 96)")
 	width := fs.Float64("width", 0, "drawing width in points (default 1200)")
 	height := fs.Float64("height", 0, "drawing height in points (default 800)")
+	points := fs.Int("points", 0, "CSV only: sample each element at N+1 evenly spaced points, both ends included (default 4; fewer from 20,000 elements on)")
+	system := fs.String("units", "", "unit system of the output: SI or US (default: the file's display units)")
 	path, err := parseOneFile(fs, args)
 	if err != nil {
 		return err
@@ -36,20 +41,85 @@ func exportCommand(args []string, stdout io.Writer) error {
 	if err != nil {
 		return err
 	}
+	opts := report.Options{Width: float32(*width), Height: float32(*height), DPI: *dpi}
+	if set(fs, "points") {
+		if kind != "csv" {
+			return usageError{"--points applies to the CSV table only: use it with --out NAME.csv"}
+		}
+		if *points < 1 || *points > canvas.CSVMaxPoints {
+			return usageError{fmt.Sprintf("--points %d: give from 1 to %d intervals per element", *points, canvas.CSVMaxPoints)}
+		}
+		opts.CSVPoints = *points
+	}
+	if *system != "" {
+		u, ok := units.ByName(*system)
+		if !ok {
+			return usageError{fmt.Sprintf("unknown unit system %q: use SI or US", *system)}
+		}
+		opts.Units = u
+	}
 	p, err := storage.Load(path)
 	if err != nil {
 		return modelError{err}
 	}
-	var buf bytes.Buffer
-	opts := report.Options{Width: float32(*width), Height: float32(*height), DPI: *dpi}
-	if err := report.Export(context.Background(), &buf, p, kind, opts); err != nil {
+	n, err := writeExport(*out, func(w io.Writer) error {
+		return report.Export(context.Background(), w, p, kind, opts)
+	})
+	if err != nil {
 		return modelError{fmt.Errorf("%s: %w", path, err)}
 	}
-	if err := os.WriteFile(*out, buf.Bytes(), 0o644); err != nil {
-		return fmt.Errorf("cannot write %s: %w", *out, err)
-	}
-	fmt.Fprintf(stdout, "wrote %s (%d bytes)\n", *out, buf.Len())
+	fmt.Fprintf(stdout, "wrote %s (%d bytes)\n", *out, n)
 	return nil
+}
+
+// set reports whether the flag name was given on the command line.
+func set(fs *flag.FlagSet, name string) bool {
+	found := false
+	fs.Visit(func(f *flag.Flag) { found = found || f.Name == name })
+	return found
+}
+
+// writeExport streams what write writes to a file beside path and renames
+// it to path once complete, so a failed export leaves no file and an old
+// one in place; it returns the number of bytes written. The product goes
+// straight to the file: a large results table is never held in memory.
+func writeExport(path string, write func(io.Writer) error) (int64, error) {
+	tmp, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".*")
+	if err != nil {
+		return 0, fmt.Errorf("cannot write %s: %w", path, err)
+	}
+	buf := bufio.NewWriterSize(tmp, 1<<20)
+	counted := &countingWriter{w: buf}
+	err = write(counted)
+	if err == nil {
+		err = buf.Flush()
+	}
+	if err == nil {
+		err = tmp.Chmod(0o644) // as os.WriteFile would create it
+	}
+	if cerr := tmp.Close(); err == nil {
+		err = cerr
+	}
+	if err == nil {
+		err = os.Rename(tmp.Name(), path)
+	}
+	if err != nil {
+		os.Remove(tmp.Name())
+		return 0, err
+	}
+	return counted.n, nil
+}
+
+// countingWriter counts the bytes written through it.
+type countingWriter struct {
+	w io.Writer
+	n int64
+}
+
+func (c *countingWriter) Write(p []byte) (int, error) {
+	n, err := c.w.Write(p)
+	c.n += int64(n)
+	return n, err
 }
 
 // exportKind picks what to write from the output file's extension.

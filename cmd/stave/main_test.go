@@ -208,10 +208,62 @@ func TestExportMisuse(t *testing.T) {
 		{"export", "../../testdata/demo.json", "--out", "x.txt"},
 		{"export", "../../testdata/demo.json", "--out", "x.svg", "--sheet"},
 		{"export", "../../testdata/demo.json", "--out", "x.png", "--dpi", "-3"},
+		{"export", "../../testdata/demo.json", "--out", "x.csv", "--points", "0"},
+		{"export", "../../testdata/demo.json", "--out", "x.csv", "--points", "1001"},
+		{"export", "../../testdata/demo.json", "--out", "x.png", "--points", "3"},
+		{"export", "../../testdata/demo.json", "--out", "x.csv", "--units", "imperial"},
 	} {
 		if code, _, _ := runStave(t, args...); code != 2 {
 			t.Errorf("%v: exit %d, want 2", args, code)
 		}
+	}
+}
+
+// --points sets the rows per element of the table and --units its unit
+// system, which the preamble states; the file is written whole or not at
+// all.
+func TestExportCSVPointsAndUnits(t *testing.T) {
+	dir := t.TempDir()
+	out := filepath.Join(dir, "fields.csv")
+	elements := 0
+	for _, c := range []struct {
+		args  []string
+		units string
+		rows  int // per element
+	}{
+		{nil, "SI", 5},
+		{[]string{"--points", "1", "--units", "US"}, "US", 2},
+		{[]string{"--points", "7", "--units", "SI"}, "SI", 8},
+	} {
+		args := append([]string{"export", "../../testdata/cantilever_tip_load.json", "--out", out}, c.args...)
+		if code, _, stderr := runStave(t, args...); code != 0 {
+			t.Fatalf("%v: exit %d: %s", c.args, code, stderr)
+		}
+		data, err := os.ReadFile(out)
+		if err != nil {
+			t.Fatal(err)
+		}
+		text := string(data)
+		if !strings.Contains(text, "\n# Units: "+c.units+".") {
+			t.Errorf("%v: no units line for %s", c.args, c.units)
+		}
+		var rows int
+		for _, line := range strings.Split(strings.TrimSpace(text), "\n") {
+			if !strings.HasPrefix(line, "#") && !strings.HasPrefix(line, "x [") {
+				rows++
+			}
+		}
+		// The same mesh each time: the first table tells its size.
+		if elements == 0 {
+			elements = rows / c.rows
+		}
+		if rows != elements*c.rows || elements == 0 {
+			t.Errorf("%v: %d rows, not %d for each of %d elements", c.args, rows, c.rows, elements)
+		}
+	}
+	entries, err := os.ReadDir(dir)
+	if err != nil || len(entries) != 1 {
+		t.Errorf("the export left %d files behind (%v), want only the table", len(entries), err)
 	}
 }
 

@@ -15,6 +15,7 @@ import (
 	"context"
 	"errors"
 	"fmt"
+	"slices"
 
 	"stave/fem"
 	"stave/fem/check"
@@ -46,6 +47,9 @@ type Analysis struct {
 	Handbook *check.Case    // the handbook case the model matches, if any
 	// Complete says Finish has run to its end.
 	Complete bool
+	// summary is what Finish's walk gathered for Summary; shared by the
+	// copies of a, never changed.
+	summary *fem.Summary
 }
 
 // Solve is the first stage: r's model solved by finite elements, on r's
@@ -90,7 +94,13 @@ func Finish(ctx context.Context, r Request, a Analysis) (Analysis, error) {
 		return a, err
 	}
 	if a.Solution != nil {
-		a.Checks = check.Run(&a.Model, a.Solution, a.Exact, r.Checks)
+		// One walk over the elements feeds the summary and the checks.
+		z := fem.NewSummarizer(a.Solution, a.Exact)
+		p := check.NewProbe(&a.Model, a.Solution, a.Exact)
+		fem.Walk(a.Solution, a.Exact, z, p)
+		a.Checks = p.Results(z.Comparison(), r.Checks)
+		sum := z.Summary()
+		a.summary = &sum
 	}
 	if c, ok := check.Handbook(&a.Model); ok {
 		a.Handbook = &c
@@ -121,10 +131,24 @@ func (a *Analysis) Problem() string {
 	return a.Err.Error()
 }
 
-// Summary is fem.Summarize of the solution against the exact one, with a
-// warning when the exact solution is missing; a must have a Solution.
+// Summary is fem.Summarize of the solution against the exact one, as
+// Finish's walk gathered it (worked out here before Finish), with a warning
+// when the exact solution is missing; a must have a Solution. It is a copy:
+// the caller may change it.
 func (a *Analysis) Summary() fem.Summary {
-	sum := fem.Summarize(a.Solution, a.Exact)
+	var sum fem.Summary
+	if a.summary == nil {
+		sum = fem.Summarize(a.Solution, a.Exact)
+	} else {
+		sum = *a.summary
+		sum.Reactions = slices.Clone(sum.Reactions)
+		sum.Extremes = slices.Clone(sum.Extremes)
+		sum.Warnings = slices.Clone(sum.Warnings)
+		if e := sum.ExactError; e != nil {
+			norms := *e
+			sum.ExactError = &norms
+		}
+	}
 	if a.Exact == nil {
 		sum.Warnings = append(sum.Warnings, "the exact solution is not available for this model, so the error against it is not reported")
 	}

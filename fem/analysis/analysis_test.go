@@ -4,6 +4,7 @@ import (
 	"context"
 	"errors"
 	"math"
+	"reflect"
 	"strings"
 	"testing"
 
@@ -150,5 +151,30 @@ func TestCancelled(t *testing.T) {
 	a, err := Finish(ctx, r, first)
 	if !errors.Is(err, context.Canceled) || a.Complete || a.Exact != nil {
 		t.Errorf("Finish on a cancelled context: err %v, complete %v, exact %v", err, a.Complete, a.Exact != nil)
+	}
+}
+
+// Finish walks the elements once for the summary and the checks together;
+// what it gives is what fem.Summarize and check.Run give each on its own
+// walk, on a mesh large enough to be walked in two halves at once. The
+// summary handed out is a copy: changing it leaves the analysis alone.
+func TestFinishOneWalkForSummaryAndChecks(t *testing.T) {
+	m := load(t, "demo.json")
+	m.Mesh = fem.MeshSettings{Elements: 6000}
+	r := Request{Model: m, Checks: check.DefaultOptions()}
+	a, err := Run(context.Background(), r)
+	if err != nil || a.Solution == nil || a.Exact == nil {
+		t.Fatalf("analysis: %v, %v, %v", err, a.Err, a.ExactErr)
+	}
+	got, want := a.Summary(), fem.Summarize(a.Solution, a.Exact)
+	if !reflect.DeepEqual(got, want) {
+		t.Errorf("summary of the shared walk\n%+v\nsummarized alone\n%+v", got, want)
+	}
+	if want := check.Run(&a.Model, a.Solution, a.Exact, r.Checks); !reflect.DeepEqual(a.Checks, want) {
+		t.Errorf("checks of the shared walk differ from check.Run's")
+	}
+	got.Extremes[0].Max, got.ExactError.MaxStress = 1e300, 1e300
+	if again := a.Summary(); again.Extremes[0].Max == 1e300 || again.ExactError.MaxStress == 1e300 {
+		t.Error("changing a summary changed the analysis's")
 	}
 }

@@ -136,7 +136,7 @@ func columns(m *fem.Model) []column {
 
 // bucklingChecks compares the largest compression in each column with its
 // Euler load.
-func bucklingChecks(p probe, o Options) []Result {
+func bucklingChecks(p *Probe, o Options) []Result {
 	var out []Result
 	roundOff := negligible * axialScale(p.model)
 	for k, c := range p.columns {

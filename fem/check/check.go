@@ -131,21 +131,40 @@ func (o Options) withDefaults() Options {
 // Run makes every check on model m with its finite element solution s and,
 // when e is not nil, its exact solution. Stresses, deflections and axial
 // forces are read from both solutions and the larger magnitude is used, so
-// a coarse mesh cannot hide a peak between nodes.
+// a coarse mesh cannot hide a peak between nodes. It walks the elements once
+// for its probes and the comparison with the exact solution; a caller that
+// walks them for other consumers too uses NewProbe and Probe.Results.
 func Run(m *fem.Model, s *fem.Solution, e *fem.Exact, opts Options) []Result {
-	opts = opts.withDefaults()
 	if m == nil || s == nil {
 		return []Result{withCaution(Result{Name: "Checks", Status: Info,
 			Message: "There is no solution to check yet: fix the model until it solves, then the checks run."})}
 	}
-	p := read(m, s, e)
+	p := NewProbe(m, s, e)
+	c := fem.NewComparison(s, e)
+	if c == nil {
+		fem.Walk(s, e, p)
+	} else {
+		fem.Walk(s, e, p, c)
+	}
+	return p.Results(c, opts)
+}
+
+// Results makes every check from what p gathered in a walk over all the
+// elements and c, the comparison with the exact solution gathered in the
+// same walk (nil when there is no exact solution).
+func (p *Probe) Results(c *fem.Comparison, opts Options) []Result {
+	opts = opts.withDefaults()
+	p.foldExact()
+	if c != nil {
+		p.norms, p.stressErrorAt = c.Norms(), c.WorstStress()
+	}
 	var out []Result
 	out = append(out, stressChecks(p, opts)...)
 	out = append(out, deflectionChecks(p, opts)...)
 	out = append(out, bucklingChecks(p, opts)...)
-	out = append(out, equilibriumChecks(m, s, opts)...)
+	out = append(out, equilibriumChecks(p.model, p.solution, opts)...)
 	out = append(out, exactCheck(p, opts))
-	out = append(out, handbookCheck(m, s, opts)...)
+	out = append(out, handbookCheck(p.model, p.solution, opts)...)
 	for i := range out {
 		out[i] = withCaution(out[i])
 	}
@@ -160,15 +179,22 @@ func withCaution(r Result) Result {
 // peak is the value a check keeps, and where it occurs.
 type peak struct{ value, x float64 }
 
-// probe holds what the checks read from the solutions, gathered in one walk
-// over the points where fem.CompareVisiting compares them: both solutions
-// are read once per point and every check that covers the point takes its
-// value there.
-type probe struct {
-	model   *fem.Model
-	exact   *fem.Exact // nil when not available
-	parts   []stretch  // spans and overhangs, for deflection
-	columns []column   // parts checked for buckling
+// Probe holds what the checks read from the solutions, in closed form: the
+// finite element solution element by element in a walk (it is a
+// fem.Visitor), the exact solution stretch by stretch between key points,
+// where each of its fields is one polynomial. Every check that covers an
+// element or a stretch takes its extreme there.
+type Probe struct {
+	model    *fem.Model
+	solution *fem.Solution
+	exact    *fem.Exact // nil when not available
+	parts    []stretch  // spans and overhangs, for deflection
+	columns  []column   // parts checked for buckling
+	// chords are the support deflections of each part, per solution.
+	chords                 [][2]chordLine
+	partCover, columnCover cover
+	covered                []int // scratch for the parts or columns covering an element
+
 	// stress holds per segment the combined stress of largest magnitude
 	// (signed), from whichever solution is larger there.
 	stress []peak
@@ -176,18 +202,39 @@ type probe struct {
 	deflection []peak
 	// compression holds per column the largest −N.
 	compression []peak
-	// stressError is the largest |σ_h − σ| against the exact solution.
-	stressError peak
-	// norms are the error norms against the exact solution.
-	norms fem.ErrorNorms
+
+	// From the comparison with the exact solution (Results): the error
+	// norms and where the largest stress error is.
+	norms         fem.ErrorNorms
+	stressErrorAt float64
 }
 
-// read walks the points of s (and e) once for every check.
-func read(m *fem.Model, s *fem.Solution, e *fem.Exact) probe {
-	p := probe{model: m, exact: e, parts: stretches(m), columns: columns(m)}
+// NewProbe is an empty probe of model m, its finite element solution s and
+// its exact solution e (nil when not available), to be shown every element
+// of s in a walk (fem.Walk) before its Results are read.
+func NewProbe(m *fem.Model, s *fem.Solution, e *fem.Exact) *Probe {
+	p := &Probe{model: m, solution: s, exact: e, parts: stretches(m), columns: columns(m)}
 	els := s.Mesh.Elements
-	p.stress = make([]peak, len(m.Segments))
-	for i, seg := range m.Segments {
+	p.partCover, p.columnCover = newCover(els, len(p.parts)), newCover(els, len(p.columns))
+	p.chords = make([][2]chordLine, len(p.parts))
+	for k, st := range p.parts {
+		p.partCover.set(k, st.a, st.b)
+		p.chords[k][0] = newChord(s, st)
+		if e != nil {
+			p.chords[k][1] = newChord(e, st)
+		}
+	}
+	for k, c := range p.columns {
+		p.columnCover.set(k, c.a, c.b)
+	}
+	p.reset()
+	return p
+}
+
+// reset empties the peaks.
+func (p *Probe) reset() {
+	p.stress = make([]peak, len(p.model.Segments))
+	for i, seg := range p.model.Segments {
 		p.stress[i].x = seg.Start
 	}
 	p.deflection = make([]peak, len(p.parts))
@@ -195,65 +242,110 @@ func read(m *fem.Model, s *fem.Solution, e *fem.Exact) probe {
 	for k, c := range p.columns {
 		p.compression[k].x = c.a
 	}
-	p.stressError.value = -1
-	partCover, columnCover := newCover(els, len(p.parts)), newCover(els, len(p.columns))
-	// The support deflections of each part, per solution, for its chord.
-	chords := make([][2]chordLine, len(p.parts))
-	for k, st := range p.parts {
-		partCover.set(k, st.a, st.b)
-		chords[k][0] = newChord(s, st)
-		if e != nil {
-			chords[k][1] = newChord(e, st)
+}
+
+// Visit takes the finite element peaks of one element.
+func (p *Probe) Visit(v *fem.ElementView) {
+	fe := &v.FE
+	p.takeStress(v.Segment, fe)
+	p.covered = p.partCover.at(v.Index, p.covered[:0])
+	for _, k := range p.covered {
+		p.takeDeflection(k, fe, &p.chords[k][0])
+	}
+	p.covered = p.columnCover.at(v.Index, p.covered[:0])
+	for _, k := range p.covered {
+		p.takeCompression(k, fe)
+	}
+}
+
+// Fork is an empty probe of the same solutions for a later part of the member.
+func (p *Probe) Fork() fem.Visitor {
+	q := *p
+	q.partCover, q.columnCover = p.partCover.fresh(), p.columnCover.fresh()
+	q.covered = nil
+	q.reset()
+	return &q
+}
+
+// Join takes the peaks of later, which saw the elements after p's.
+func (p *Probe) Join(later fem.Visitor) {
+	q := later.(*Probe)
+	for i, pk := range q.stress {
+		if math.Abs(pk.value) > math.Abs(p.stress[i].value) {
+			p.stress[i] = pk
 		}
 	}
-	for k, c := range p.columns {
-		columnCover.set(k, c.a, c.b)
+	for k, pk := range q.deflection {
+		if pk.value > p.deflection[k].value {
+			p.deflection[k] = pk
+		}
 	}
-	// The solutions in order, finite element first: a later one replaces an
-	// earlier value only when strictly larger in magnitude.
-	larger := func(fromFE, fromExact float64) float64 {
-		best := 0.0
-		if math.Abs(fromFE) > math.Abs(best) {
-			best = fromFE
+	for k, pk := range q.compression {
+		if pk.value > p.compression[k].value {
+			p.compression[k] = pk
 		}
-		if e != nil && math.Abs(fromExact) > math.Abs(best) {
-			best = fromExact
-		}
-		return best
 	}
-	var parts, cols []int
-	element := -1
-	var stress *peak
-	p.norms = fem.CompareVisiting(s, e, func(pt *fem.ComparedPoint) {
-		if pt.Element != element {
-			element = pt.Element
-			parts, cols = partCover.at(element, parts[:0]), columnCover.at(element, cols[:0])
-			stress = &p.stress[els[element].Segment]
-		}
-		x, fe, ex := pt.X, &pt.FE, &pt.Exact
-		if v := larger(fe.CombinedStress, ex.CombinedStress); math.Abs(v) > math.Abs(stress.value) {
-			*stress = peak{v, x}
-		}
-		for _, k := range parts {
-			c := &chords[k]
-			v := larger(fe.Deflection-c[0].at(x), ex.Deflection-c[1].at(x))
-			if math.Abs(v) > p.deflection[k].value {
-				p.deflection[k] = peak{math.Abs(v), x}
+}
+
+// foldExact takes the exact solution's peaks, stretch by stretch; each
+// replaces a finite element one only where strictly larger.
+func (p *Probe) foldExact() {
+	if p.exact == nil {
+		return
+	}
+	for _, iv := range p.exact.Intervals() {
+		mid := iv.X(0.5)
+		p.takeStress(p.model.SegmentAt(mid), &iv)
+		for k, st := range p.parts {
+			if st.a <= mid && mid <= st.b {
+				p.takeDeflection(k, &iv, &p.chords[k][1])
 			}
 		}
-		for _, k := range cols {
-			if n := -fe.AxialForce; n > p.compression[k].value {
-				p.compression[k] = peak{n, x}
-			}
-			if n := -ex.AxialForce; e != nil && n > p.compression[k].value {
-				p.compression[k] = peak{n, x}
+		for k, c := range p.columns {
+			if c.a <= mid && mid <= c.b {
+				p.takeCompression(k, &iv)
 			}
 		}
-		if d := math.Abs(fe.CombinedStress - ex.CombinedStress); e != nil && d > p.stressError.value {
-			p.stressError = peak{d, x}
-		}
-	})
-	return p
+	}
+}
+
+// takeStress takes the combined stress of largest magnitude on v for segment i.
+func (p *Probe) takeStress(i int, v *fem.Interval) {
+	lo, hi := v.Range(fem.QCombinedStress)
+	best := hi
+	if math.Abs(lo.Value) > math.Abs(hi.Value) {
+		best = lo
+	}
+	if math.Abs(best.Value) > math.Abs(p.stress[i].value) {
+		p.stress[i] = peak{best.Value, best.X}
+	}
+}
+
+// takeDeflection takes the largest |w − chord| on v for part k.
+func (p *Probe) takeDeflection(k int, v *fem.Interval, c *chordLine) {
+	w, _ := v.Polynomial(fem.QDeflection)
+	a, b := c.at(v.X(0)), c.at(v.X(1))
+	w[0] -= a
+	w[1] -= b - a
+	if w.MaxAbsBound() <= p.deflection[k].value {
+		return // it cannot beat the peak so far
+	}
+	lo, hi := v.RangeOf(&w)
+	best := hi
+	if math.Abs(lo.Value) > math.Abs(hi.Value) {
+		best = lo
+	}
+	if math.Abs(best.Value) > p.deflection[k].value {
+		p.deflection[k] = peak{math.Abs(best.Value), best.X}
+	}
+}
+
+// takeCompression takes the largest −N on v for column k.
+func (p *Probe) takeCompression(k int, v *fem.Interval) {
+	lo, _ := v.Range(fem.QAxialForce)
+	if n := -lo.Value; n > p.compression[k].value {
+		p.compression[k] = peak{n, lo.X}
+	}
 }
 
 // cover finds, element by element, which of a list of parts of the member
@@ -268,6 +360,12 @@ type cover struct {
 
 func newCover(els []fem.Element, parts int) cover {
 	return cover{els: els, first: make([]int, parts), end: make([]int, parts)}
+}
+
+// fresh is c for a new walk, from any element on.
+func (c cover) fresh() cover {
+	c.next = 0
+	return c
 }
 
 // set records the elements part k = [a, b] overlaps.
@@ -290,7 +388,7 @@ func (c *cover) at(i int, dst []int) []int {
 	return dst
 }
 
-func (p probe) fromWhat() string {
+func (p *Probe) fromWhat() string {
 	if p.exact != nil {
 		return "the larger of the finite element and exact solutions"
 	}

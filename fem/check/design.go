@@ -11,7 +11,7 @@ import (
 
 // stressChecks compares, per segment, the largest combined stress with the
 // allowable stress over the safety factor.
-func stressChecks(p probe, o Options) []Result {
+func stressChecks(p *Probe, o Options) []Result {
 	var out []Result
 	for i, seg := range p.model.Segments {
 		r := Result{Name: fmt.Sprintf("Stress, segment %d", i+1), Span: [2]float64{seg.Start, seg.End}}
@@ -105,7 +105,7 @@ func stretches(m *fem.Model) []stretch {
 
 // deflectionChecks measures, per stretch, the deflection relative to the
 // supports (so settlements do not count) against span/n.
-func deflectionChecks(p probe, o Options) []Result {
+func deflectionChecks(p *Probe, o Options) []Result {
 	if len(p.parts) == 0 {
 		return []Result{{Name: "Deflection", Status: Info,
 			Message: "No support restrains deflection rigidly, so there is no span to measure deflection against; deflection is not checked."}}

@@ -29,12 +29,16 @@ type recorded struct {
 // testdata/run_regression.json holds what Run gave on every testdata model,
 // each on its own mesh, on 101 linear-bar elements and on 25 quadratic-bar
 // elements, recorded from the implementation that probed both solutions with
-// At at every sample point, before Run was rewritten to read them in one
-// pass. The rewrite must give the same checks, statuses, positions and
-// values to 1e-9 relative. Values at round-off level (the relative error of
-// a mesh that is exact, the compression of a member in tension) need only
-// stay at round-off; where the largest stress error is reached at several
-// places at once (the same error in every element), any of them will do.
+// At at nine points of every element, before Run was rewritten to read them
+// in one pass and then to take its peaks in closed form. The rewrites must
+// give the same checks, statuses and limits, and values and positions to
+// 1e-9 relative, but that a peak found in closed form (stress, deflection,
+// compression) may have grown by what nine samples per element miss of a
+// peak between them, and moved within an element to where it is. Values at
+// round-off level (the relative error of a mesh that is exact, the
+// compression of a member in tension) need only stay at round-off; where
+// the largest stress error is reached at several places at once (the same
+// error in every element), any of them will do.
 func TestRunUnchangedByRewrite(t *testing.T) {
 	data, err := os.ReadFile(filepath.Join("testdata", "run_regression.json"))
 	if err != nil {
@@ -71,16 +75,29 @@ func TestRunUnchangedByRewrite(t *testing.T) {
 				floor = 1e-12 * force
 			}
 			same := func(g, w, tol float64) bool { return math.Abs(g-w) <= tol }
-			sameX := same(r.X, want.X, 1e-9*L) ||
+			tol, grown, moved := 1e-9*math.Abs(want.Value)+floor, 0.0, 1e-9*L
+			if peak := r.Kind == Design; peak {
+				grown, moved = 1e-3*math.Abs(want.Value), longestElement(s)
+			}
+			sameX := same(r.X, want.X, moved) ||
 				r.Name == "Error against the exact solution" && worstStressError(s, e, r.X)
-			if r.Name != want.Name || r.Status != want.Status || !sameX ||
-				!same(r.Value, want.Value, 1e-9*math.Abs(want.Value)+floor) ||
+			sameValue := r.Value >= want.Value-tol && r.Value <= want.Value+tol+grown
+			if r.Name != want.Name || r.Status != want.Status || !sameX || !sameValue ||
 				!same(r.Limit, want.Limit, 1e-9*math.Abs(want.Limit)) {
 				t.Errorf("%s, %+v:\n got %q %v x = %.12g value %.12g limit %.12g\nwant %q %v x = %.12g value %.12g limit %.12g",
 					c.File, c.Mesh, r.Name, r.Status, r.X, r.Value, r.Limit, want.Name, want.Status, want.X, want.Value, want.Limit)
 			}
 		}
 	}
+}
+
+// longestElement is the length of the longest element of s, m.
+func longestElement(s *fem.Solution) float64 {
+	h := 0.0
+	for _, el := range s.Mesh.Elements {
+		h = math.Max(h, el.End-el.Start)
+	}
+	return h
 }
 
 // worstStressError reports whether |σ_h − σ| at x, from either side, is the
@@ -93,9 +110,9 @@ func worstStressError(s *fem.Solution, e *fem.Exact, x float64) bool {
 	}
 	worst, stress := 0.0, 0.0
 	for _, el := range s.Mesh.Elements {
-		for j := 0; j <= fem.ComparePoints; j++ {
-			x, side := el.Start+(el.End-el.Start)*float64(j)/fem.ComparePoints, fem.Right
-			if j == fem.ComparePoints {
+		for j := 0; j <= comparePoints; j++ {
+			x, side := el.Start+(el.End-el.Start)*float64(j)/comparePoints, fem.Right
+			if j == comparePoints {
 				x, side = el.End, fem.Left
 			}
 			worst = math.Max(worst, differs(x, side))
@@ -105,3 +122,7 @@ func worstStressError(s *fem.Solution, e *fem.Exact, x float64) bool {
 	at := math.Max(differs(x, fem.Left), differs(x, fem.Right))
 	return at >= worst*(1-1e-9)-1e-12*stress
 }
+
+// comparePoints is the number of intervals each element was sampled in by
+// the implementation the recorded values come from.
+const comparePoints = 8

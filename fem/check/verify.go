@@ -51,7 +51,7 @@ func equilibriumChecks(m *fem.Model, s *fem.Solution, o Options) []Result {
 }
 
 // exactCheck measures the finite element error against the exact solution.
-func exactCheck(p probe, o Options) Result {
+func exactCheck(p *Probe, o Options) Result {
 	r := Result{Name: "Error against the exact solution", Kind: Verification, Limit: o.ErrorLimit, Span: [2]float64{0, p.model.Length()}}
 	if p.exact == nil {
 		r.Status = Info
@@ -59,7 +59,7 @@ func exactCheck(p probe, o Options) Result {
 		return r
 	}
 	norms := p.norms
-	r.Value, r.X = norms.MaxStressRelative, p.stressError.x
+	r.Value, r.X = norms.MaxStressRelative, p.stressErrorAt
 	r.Status = Pass
 	if r.Value > r.Limit {
 		r.Status = Warn

@@ -1,0 +1,113 @@
+package canvas
+
+import (
+	"bufio"
+	"bytes"
+	"fmt"
+	"io"
+	"runtime"
+	"strings"
+	"testing"
+
+	"stave/fem"
+	"stave/fem/units"
+)
+
+// The preamble states the unit system and the unit of every column, as the
+// header row does; the exact columns are read through the walk and agree
+// with Exact.At on the same side.
+func TestWriteCSVStatesUnits(t *testing.T) {
+	in := solved(t, demoModel(6))
+	for _, u := range []units.System{units.SI, units.USCustomary} {
+		var buf bytes.Buffer
+		if err := WriteCSV(&buf, in.Solution, in.Exact, u, 2); err != nil {
+			t.Fatal(err)
+		}
+		var unitsLine string
+		sc := bufio.NewScanner(&buf)
+		for sc.Scan() {
+			if strings.HasPrefix(sc.Text(), "# Units: ") {
+				unitsLine = sc.Text()
+			}
+		}
+		if !strings.HasPrefix(unitsLine, "# Units: "+u.Name+".") {
+			t.Fatalf("%s: units line %q", u.Name, unitsLine)
+		}
+		for _, q := range fem.Quantities() {
+			c := q.Info()
+			if want := fmt.Sprintf("%s in %s", c.Column, u.Unit(c.Unit).Symbol); !strings.Contains(unitsLine, want) {
+				t.Errorf("%s: units line %q lacks %q", u.Name, unitsLine, want)
+			}
+		}
+	}
+}
+
+// Points outside 1 to CSVMaxPoints are refused with the range to use.
+func TestWriteCSVRefusesPoints(t *testing.T) {
+	in := solved(t, demoModel(3))
+	for _, n := range []int{0, -1, CSVMaxPoints + 1} {
+		err := WriteCSV(io.Discard, in.Solution, in.Exact, units.SI, n)
+		if err == nil || !strings.Contains(err.Error(), fmt.Sprint(CSVMaxPoints)) {
+			t.Errorf("%d points: error %v, want one naming the range 1 to %d", n, err, CSVMaxPoints)
+		}
+	}
+}
+
+// Four intervals per element on ordinary meshes; fewer, down to one, so
+// that large tables keep to about 100,000 rows where they can.
+func TestDefaultCSVPoints(t *testing.T) {
+	for _, c := range []struct{ elements, want int }{
+		{0, 4}, {1, 4}, {20_000, 4}, {20_001, 3}, {25_000, 3}, {30_000, 2}, {50_000, 1}, {1_000_000, 1},
+	} {
+		if got := DefaultCSVPoints(c.elements); got != c.want {
+			t.Errorf("%d elements: %d points, want %d", c.elements, got, c.want)
+		}
+	}
+}
+
+// The table streams: it holds a fixed amount of memory (its buffers and the
+// walk's views), so writing ten times the elements allocates hardly more.
+// Bytes allocated are counted, not time.
+func TestWriteCSVBoundedMemory(t *testing.T) {
+	allocated := func(elements int) uint64 {
+		in := solved(t, demoModel(elements))
+		var before, after runtime.MemStats
+		runtime.GC()
+		runtime.ReadMemStats(&before)
+		if err := WriteCSV(io.Discard, in.Solution, in.Exact, units.SI, 4); err != nil {
+			t.Fatal(err)
+		}
+		runtime.ReadMemStats(&after)
+		return after.TotalAlloc - before.TotalAlloc
+	}
+	small, large := allocated(10_000), allocated(100_000)
+	if perElement := (float64(large) - float64(small)) / 90_000; perElement > 4 {
+		t.Errorf("writing 10,000 elements allocated %d bytes, 100,000 elements %d: %.1f bytes per further element, the table is not streamed", small, large, perElement)
+	}
+	t.Logf("10,000 elements: %d bytes allocated; 100,000: %d", small, large)
+}
+
+// BenchmarkWriteCSV measures the table's throughput (MB/s) on a fine mesh,
+// finite element and exact columns, four intervals per element.
+func BenchmarkWriteCSV(b *testing.B) {
+	in := solved(b, demoModel(100_000))
+	var n countingDiscard
+	if err := WriteCSV(&n, in.Solution, in.Exact, units.SI, 4); err != nil {
+		b.Fatal(err)
+	}
+	b.SetBytes(int64(n))
+	b.ReportAllocs()
+	for b.Loop() {
+		if err := WriteCSV(io.Discard, in.Solution, in.Exact, units.SI, 4); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// countingDiscard counts the bytes written to it.
+type countingDiscard int
+
+func (c *countingDiscard) Write(p []byte) (int, error) {
+	*c += countingDiscard(len(p))
+	return len(p), nil
+}

@@ -1,0 +1,286 @@
+package fem
+
+import (
+	"math"
+
+	"gonum.org/v1/gonum/integrate/quad"
+)
+
+// Polynomial is Σ P[k]·ξ^k in a local coordinate ξ ∈ [0, 1]: every field of
+// an element, and of a stretch of the exact solution, is one (a quintic at
+// most: the exact deflection under a linearly varying load).
+type Polynomial [polynomialTerms]float64
+
+// polynomialTerms is the number of coefficients of a Polynomial.
+const polynomialTerms = 6
+
+// At is the value at ξ, by Horner's rule.
+func (p *Polynomial) At(xi float64) float64 {
+	return p[0] + xi*(p[1]+xi*(p[2]+xi*(p[3]+xi*(p[4]+xi*p[5]))))
+}
+
+// Derivative is dP/dξ.
+func (p *Polynomial) Derivative() Polynomial {
+	return Polynomial{p[1], 2 * p[2], 3 * p[3], 4 * p[4], 5 * p[5]}
+}
+
+// Degree is the index of the last coefficient that is not zero; 0 for a
+// constant, zero included.
+func (p *Polynomial) Degree() int {
+	for d := polynomialTerms - 1; d > 0; d-- {
+		if p[d] != 0 {
+			return d
+		}
+	}
+	return 0
+}
+
+// at is At for a polynomial of degree at most d.
+func (p *Polynomial) at(d int, xi float64) float64 {
+	if d == 3 {
+		return p.at3(xi)
+	}
+	v := p[d]
+	for k := d - 1; k >= 0; k-- {
+		v = v*xi + p[k]
+	}
+	return v
+}
+
+// at2 and at3 are At for polynomials of degree 2 and 3 at most, written
+// out for the hot loops.
+func (p *Polynomial) at2(xi float64) float64 { return p[0] + xi*(p[1]+xi*p[2]) }
+func (p *Polynomial) at3(xi float64) float64 { return p[0] + xi*(p[1]+xi*(p[2]+xi*p[3])) }
+
+// roots writes the real roots of p inside the open interval (0, 1) to r, in
+// increasing order, and returns how many there are. A polynomial that is
+// zero everywhere has none. Degree 1 and 2 are solved in closed form;
+// higher degrees are split at the roots of the derivative (found the same
+// way) into intervals where p is monotone, each of which holds one root at
+// most, found by Newton's method kept inside its bracket. Nothing is
+// allocated.
+func (p *Polynomial) roots(r *[polynomialTerms - 1]float64) int {
+	switch d := p.Degree(); d {
+	case 0:
+		return 0
+	case 1:
+		return keepInside(r, []float64{-p[0] / p[1]})
+	case 2:
+		var q [2]float64
+		return keepInside(r, quadraticRoots(p[2], p[1], p[0], q[:0]))
+	default:
+		dp := p.Derivative()
+		var turns [polynomialTerms - 1]float64
+		nt := dp.roots(&turns)
+		n := 0
+		lo, vlo := 0.0, p.at(d, 0)
+		for i := 0; i <= nt; i++ {
+			hi := 1.0
+			if i < nt {
+				hi = turns[i]
+			}
+			vhi := p.at(d, hi)
+			switch {
+			case vhi == 0 && hi < 1:
+				r[n], n = hi, n+1 // touches or crosses zero at a turning point
+			case vlo < 0 && vhi > 0 || vlo > 0 && vhi < 0:
+				r[n], n = bracketedRoot(p, &dp, d, lo, hi, vlo, vhi), n+1
+			}
+			lo, vlo = hi, vhi
+		}
+		return n
+	}
+}
+
+// keepInside copies the roots in (0, 1) to r, sorted, and returns how many.
+func keepInside(r *[polynomialTerms - 1]float64, roots []float64) int {
+	n := 0
+	for _, x := range roots {
+		if x > 0 && x < 1 {
+			r[n], n = x, n+1
+		}
+	}
+	if n == 2 && r[1] < r[0] {
+		r[0], r[1] = r[1], r[0]
+	}
+	return n
+}
+
+// quadraticRoots appends the real roots of a·x² + b·x + c (a ≠ 0) to dst:
+// the root free of cancellation, then the other from the product of the
+// roots (Numerical Recipes, ch. 5.6, from memory).
+func quadraticRoots(a, b, c float64, dst []float64) []float64 {
+	disc := b*b - 4*a*c
+	if disc < 0 {
+		return dst
+	}
+	q := -0.5 * (b + math.Copysign(math.Sqrt(disc), b))
+	if q == 0 { // b = 0 and c = 0: a double root at 0
+		return append(dst, 0)
+	}
+	return append(dst, q/a, c/q)
+}
+
+// bracketedRoot finds the one root of p (of degree d, derivative dp) in
+// [lo, hi], where p is monotone and changes sign: Newton steps from the
+// secant point, replaced by bisection whenever one would leave the bracket.
+func bracketedRoot(p, dp *Polynomial, d int, lo, hi, vlo, vhi float64) float64 {
+	x := lo + (hi-lo)*vlo/(vlo-vhi)
+	if !(x > lo && x < hi) {
+		x = lo + (hi-lo)/2
+	}
+	for range 100 {
+		v := p.at(d, x)
+		if v == 0 {
+			return x
+		}
+		if (v < 0) == (vlo < 0) {
+			lo = x
+		} else {
+			hi = x
+		}
+		next := x - v/dp.at(d-1, x)
+		if !(next > lo && next < hi) {
+			next = lo + (hi-lo)/2
+		}
+		if math.Abs(next-x) <= 0x1p-52 || hi-lo <= 0x1p-52 {
+			return next
+		}
+		x = next
+	}
+	return x
+}
+
+// Point is a value of a field and where it is taken.
+type Point struct {
+	X     float64 // m
+	Value float64
+}
+
+// rangeOn returns the smallest and largest value of p, of degree at most d,
+// on [0, 1] in ξ: candidates are the ends, valued v0 and v1 (the element's
+// own values there, see Interval), and the roots of the derivative, in
+// closed form up to degree 3; the first met along ξ wins a tie.
+func rangeOn(p *Polynomial, d int, v0, v1 float64) (lo, hi extremum) {
+	lo, hi = extremum{0, v0}, extremum{0, v0}
+	switch {
+	case d == 2:
+		if xi := -p[1] / (2 * p[2]); xi > 0 && xi < 1 {
+			lo.least(xi, p.at(2, xi))
+			hi.most(xi, p.at(2, xi))
+		}
+	case d == 3:
+		// p' = 3·p3·ξ² + 2·p2·ξ + p1, its roots as quadraticRoots finds them.
+		a, b, c := 3*p[3], 2*p[2], p[1]
+		if disc := b*b - 4*a*c; disc >= 0 {
+			q := -0.5 * (b + math.Copysign(math.Sqrt(disc), b))
+			r0, r1 := q/a, c/q
+			if r1 < r0 {
+				r0, r1 = r1, r0
+			}
+			for _, xi := range [2]float64{r0, r1} {
+				if xi > 0 && xi < 1 {
+					v := p.at(3, xi)
+					lo.least(xi, v)
+					hi.most(xi, v)
+				}
+			}
+		}
+	case d > 3:
+		dp := p.Derivative()
+		var r [polynomialTerms - 1]float64
+		for _, xi := range r[:dp.roots(&r)] {
+			v := p.at(d, xi)
+			lo.least(xi, v)
+			hi.most(xi, v)
+		}
+	}
+	lo.least(1, v1)
+	hi.most(1, v1)
+	return lo, hi
+}
+
+// turnsInside reports whether p, of degree at most d, may turn inside
+// (0, 1), where its derivative could vanish; false means it is monotone
+// there and its extremes are at the ends. Cheap for degree 3 and less,
+// true for more.
+func turnsInside(p *Polynomial, d int) bool {
+	switch {
+	case d <= 1:
+		return false
+	case d == 2:
+		return (p[1] < 0) != (p[1]+2*p[2] < 0)
+	case d == 3:
+		// p' = p1 + 2·p2·ξ + 3·p3·ξ², its values at the ends and at its vertex.
+		d0, d1 := p[1], p[1]+2*p[2]+3*p[3]
+		if (d0 < 0) != (d1 < 0) {
+			return true
+		}
+		vertex := -p[2] / (3 * p[3])
+		return vertex > 0 && vertex < 1 && (p[1]+vertex*(2*p[2]+3*p[3]*vertex) < 0) != (d0 < 0)
+	}
+	return true
+}
+
+// maxAbs is the largest |p| on [0, 1] for p of degree at most d, and where.
+func maxAbs(p *Polynomial, d int) extremum {
+	lo, hi := rangeOn(p, d, p[0], p.at(d, 1))
+	if -lo.value > hi.value {
+		return extremum{lo.xi, -lo.value}
+	}
+	return hi
+}
+
+// extremum is a value at a local coordinate ξ.
+type extremum struct{ xi, value float64 }
+
+// least takes (xi, v) when v is below e.
+func (e *extremum) least(xi, v float64) {
+	if v < e.value {
+		e.xi, e.value = xi, v
+	}
+}
+
+// most takes (xi, v) when v is above e.
+func (e *extremum) most(xi, v float64) {
+	if v > e.value {
+		e.xi, e.value = xi, v
+	}
+}
+
+// MaxAbsBound bounds |p| on [0, 1] from above, cheaply: by the largest
+// magnitude of its coefficients in the Bernstein basis of degree 5, whose
+// convex hull holds p (Farin, Curves and Surfaces for CAGD, ch. 5, from
+// memory). The bound is reached at the ends and is within a small factor of
+// the maximum inside, so a search for a largest value can skip the
+// intervals whose bound does not beat the largest so far.
+func (p *Polynomial) MaxAbsBound() float64 {
+	// b_i = Σ_{k ≤ i} C(i, k)/C(5, k)·p_k.
+	c1, c2, c3, c4 := p[1]/5, p[2]/10, p[3]/10, p[4]/5
+	b0, b1, b2 := p[0], p[0]+c1, p[0]+2*c1+c2
+	b3, b4 := p[0]+3*c1+3*c2+c3, p[0]+4*c1+6*c2+4*c3+c4
+	b5 := p[0] + p[1] + p[2] + p[3] + p[4] + p[5]
+	lo, hi := min(b0, b1, b2), max(b0, b1, b2)
+	lo, hi = min(lo, b3, b4, b5), max(hi, b3, b4, b5)
+	return max(hi, -lo)
+}
+
+// gaussPoint is one point of a Gauss–Legendre rule on [0, 1].
+type gaussPoint struct{ xi, w float64 }
+
+// The Gauss–Legendre rules the error integrals use: n points integrate
+// polynomials of degree 2n − 1 exactly on [0, 1] (gonum's quad.Legendre).
+var (
+	gauss4 = legendre(4) // degree 7: the square of a cubic
+	gauss6 = legendre(6) // degree 11: the square of a quintic
+)
+
+func legendre(n int) []gaussPoint {
+	xs, ws := make([]float64, n), make([]float64, n)
+	quad.Legendre{}.FixedLocations(xs, ws, 0, 1)
+	out := make([]gaussPoint, n)
+	for i := range out {
+		out[i] = gaussPoint{xs[i], ws[i]}
+	}
+	return out
+}

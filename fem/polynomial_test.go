@@ -1,0 +1,148 @@
+package fem
+
+import (
+	"math"
+	"math/rand/v2"
+	"slices"
+	"testing"
+)
+
+// fromRoots is the monic polynomial with the given roots, times scale.
+func fromRoots(scale float64, roots ...float64) Polynomial {
+	p := Polynomial{scale}
+	for _, r := range roots {
+		var q Polynomial
+		for k := len(p) - 1; k >= 0; k-- {
+			q[k] = -r * p[k]
+			if k > 0 {
+				q[k] += p[k-1]
+			}
+		}
+		p = q
+	}
+	return p
+}
+
+// Roots of polynomials built from their roots (the factored form is the
+// definition of a root): those inside (0, 1) are found, in order, and no
+// others; double roots at least once.
+func TestPolynomialRoots(t *testing.T) {
+	for _, c := range []struct {
+		name  string
+		p     Polynomial
+		want  []float64
+		tight bool // simple roots: to 1e-12; a double root only to about √ε
+	}{
+		{"constant", Polynomial{3}, nil, true},
+		{"zero everywhere", Polynomial{}, nil, true},
+		{"linear inside", fromRoots(2, 0.3), []float64{0.3}, true},
+		{"linear outside", fromRoots(2, 1.3), nil, true},
+		{"quadratic, both inside", fromRoots(-5, 0.7, 0.2), []float64{0.2, 0.7}, true},
+		{"quadratic, one inside", fromRoots(1, -0.5, 0.25), []float64{0.25}, true},
+		{"quadratic, complex roots", Polynomial{1, 0, 1}, nil, true},
+		{"cubic, three inside", fromRoots(1, 0.9, 0.1, 0.5), []float64{0.1, 0.5, 0.9}, true},
+		{"cubic, roots at the ends only", fromRoots(1, 0, 1, 2), nil, true},
+		{"quartic, four inside", fromRoots(3e-7, 0.15, 0.35, 0.65, 0.85), []float64{0.15, 0.35, 0.65, 0.85}, true},
+		{"quintic, five inside", fromRoots(1e6, 0.05, 0.25, 0.5, 0.75, 0.95), []float64{0.05, 0.25, 0.5, 0.75, 0.95}, true},
+		{"quintic, close pair", fromRoots(1, 0.4, 0.4001, 2, 3, -1), []float64{0.4, 0.4001}, true},
+		{"quartic, double root", fromRoots(1, 0.3, 0.3, 0.8, 1.5), []float64{0.3, 0.8}, false},
+		{"quintic, tiny leading term", Polynomial{-0.25, 1, 0, 0, 0, 1e-20}, []float64{0.25}, true},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			var r [polynomialTerms - 1]float64
+			got := r[:c.p.roots(&r)]
+			tol := 1e-12
+			if !c.tight {
+				tol = 1e-6
+			}
+			if len(got) < len(c.want) || len(got) > len(c.want)+1 || !slices.IsSorted(got) {
+				t.Fatalf("roots %v, want %v", got, c.want)
+			}
+			for _, w := range c.want {
+				i := slices.IndexFunc(got, func(g float64) bool { return math.Abs(g-w) <= tol })
+				if i < 0 {
+					t.Errorf("root %g not found in %v", w, got)
+				}
+			}
+			if c.tight && len(got) != len(c.want) {
+				t.Errorf("roots %v, want %v", got, c.want)
+			}
+		})
+	}
+}
+
+// randomPolynomial draws a polynomial of degree up to 5 with coefficients of
+// mixed sizes and signs.
+func randomPolynomial(rnd *rand.Rand) (Polynomial, int) {
+	var p Polynomial
+	d := rnd.IntN(polynomialTerms)
+	for k := 0; k <= d; k++ {
+		p[k] = (rnd.Float64() - 0.5) * math.Pow(10, 4*rnd.Float64()-2)
+	}
+	return p, d
+}
+
+// The closed-form range of a polynomial on [0, 1] contains every value a
+// dense sampling finds and is reached: the extremes of a continuous function
+// on a closed interval lie at its ends or where its derivative vanishes
+// (Fermat's theorem on stationary points). The Bernstein bound is never below
+// the largest magnitude.
+func TestPolynomialRangeAgainstDenseSampling(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(7, 11))
+	const samples = 20000
+	for i := range 2000 {
+		p, d := randomPolynomial(rnd)
+		lo, hi := rangeOn(&p, d, p[0], p.At(1))
+		sampledLo, sampledHi, scale := math.Inf(1), math.Inf(-1), 0.0
+		for j := 0; j <= samples; j++ {
+			v := p.At(float64(j) / samples)
+			sampledLo, sampledHi = math.Min(sampledLo, v), math.Max(sampledHi, v)
+		}
+		for _, c := range p {
+			scale += math.Abs(c)
+		}
+		floor := 1e-14 * scale
+		// Between samples 1/samples apart a polynomial departs from its
+		// extreme by at most |p''|/2·(1/(2·samples))², |p''| ≤ 20·scale.
+		gap := 10 * scale / (4 * samples * samples)
+		if lo.value > sampledLo+floor || hi.value < sampledHi-floor ||
+			lo.value < sampledLo-gap-floor || hi.value > sampledHi+gap+floor {
+			t.Errorf("polynomial %d %v: range [%.17g, %.17g], sampled [%.17g, %.17g]", i, p, lo.value, hi.value, sampledLo, sampledHi)
+		}
+		if v := p.At(lo.xi); math.Abs(v-lo.value) > floor {
+			t.Errorf("polynomial %d %v: lowest %g reported at ξ = %g, where it is %g", i, p, lo.value, lo.xi, v)
+		}
+		if v := p.At(hi.xi); math.Abs(v-hi.value) > floor {
+			t.Errorf("polynomial %d %v: highest %g reported at ξ = %g, where it is %g", i, p, hi.value, hi.xi, v)
+		}
+		if b := p.MaxAbsBound(); b < math.Max(-lo.value, hi.value)-floor {
+			t.Errorf("polynomial %d %v: Bernstein bound %g below the largest magnitude %g", i, p, b, math.Max(-lo.value, hi.value))
+		}
+		// A polynomial that does not turn inside has its extremes at the ends.
+		if !turnsInside(&p, d) {
+			ends := [2]float64{p.At(0), p.At(1)}
+			if sampledLo < min(ends[0], ends[1])-floor || sampledHi > max(ends[0], ends[1])+floor {
+				t.Errorf("polynomial %d %v: said not to turn inside, but sampled from %g to %g between ends %g and %g", i, p, sampledLo, sampledHi, ends[0], ends[1])
+			}
+		}
+	}
+}
+
+// The Gauss–Legendre rules integrate x^k exactly to degree 2n − 1:
+// ∫₀¹ x^k dx = 1/(k + 1).
+func TestGaussRulesExact(t *testing.T) {
+	for _, c := range []struct {
+		rule   []gaussPoint
+		degree int
+	}{{gauss4, 7}, {gauss6, 11}} {
+		for k := 0; k <= c.degree; k++ {
+			sum := 0.0
+			for _, q := range c.rule {
+				sum += q.w * math.Pow(q.xi, float64(k))
+			}
+			if math.Abs(sum-1/float64(k+1)) > 1e-15 {
+				t.Errorf("%d points, x^%d: %.17g, want %.17g", len(c.rule), k, sum, 1/float64(k+1))
+			}
+		}
+	}
+}
