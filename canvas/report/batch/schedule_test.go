@@ -20,10 +20,10 @@ func scheduleMember(i int) *storage.Project {
 	L := 2.4 + 0.1*float64(i%37)
 	steel := i%3 == 0
 	seg := fem.Segment{Start: 0, End: L,
-		Section:  fem.Section{Area: 0.0072, SecondMoment: 8.64e-5, FibreDistance: 0.12},
+		Section:  fem.Section{Area: 0.018, SecondMoment: 8.64e-5, FibreDistance: 0.12}, // 75 × 240 mm
 		Material: fem.Material{Name: "timber", Elastic: 11e9, Density: 500, Allowable: 10e6}}
 	if steel {
-		seg.Section = fem.Section{Area: 2.85e-3, SecondMoment: 1.94e-5, FibreDistance: 0.1}
+		seg.Section = fem.Section{Area: 2.85e-3, SecondMoment: 1.94e-5, FibreDistance: 0.1} // a 200 mm I-section
 		seg.Material = fem.Material{Name: "steel", Elastic: 210e9, Density: 7850, Allowable: 165e6}
 	}
 	m := fem.Model{Segments: []fem.Segment{seg}, Gravity: [2]float64{0, -fem.StandardGravity}}
@@ -37,7 +37,7 @@ func scheduleMember(i int) *storage.Project {
 	case 3:
 		m.Supports = []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L / 2, Kind: fem.Roller}, {X: L, Kind: fem.Roller}}
 	}
-	q := -(2e3 + 150*float64(i%23))
+	q := -(1e3 + 60*float64(i%23))
 	if steel {
 		q *= 4
 	}
