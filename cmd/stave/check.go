@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"runtime/debug"
 	"strings"
 	"time"
 
@@ -61,6 +62,12 @@ func checkCommand(args []string, stdout, stderr io.Writer) error {
 	bar := newProgress(nil, len(paths), time.Now)
 	if isTerminal(stderr) && (format == "text" || !isTerminal(stdout)) {
 		bar.w = stderr
+	}
+	if os.Getenv("GOGC") == "" {
+		// The batch keeps a few MiB alive while it allocates fast, so the
+		// default target collects every few members: 400 saved 13 % of the
+		// processor time on 10,000 members for 10 MiB more (docs/performance.md).
+		debug.SetGCPercent(400)
 	}
 	done := 0
 	sum, err := batch.Run(context.Background(), paths, batch.Options{Workers: *workers}, func(m batch.Member) error {
