@@ -66,7 +66,7 @@ func checkCommand(args []string, stdout, stderr io.Writer) error {
 	if os.Getenv("GOGC") == "" {
 		// The batch keeps a few MiB alive while it allocates fast, so the
 		// default target collects every few members: 400 saved 13 % of the
-		// processor time on 10,000 members for 10 MiB more (docs/performance.md).
+		// processor time on 10,000 members for 10 to 20 MB more (docs/performance.md).
 		debug.SetGCPercent(400)
 	}
 	done := 0
