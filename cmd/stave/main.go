@@ -6,11 +6,13 @@
 //	stave solve [--json] [--units SI|US] FILE
 //	stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet] [--dpi N] [--points N] [--units SI|US]
 //	stave converge [--json] [--max N] FILE
+//	stave check [--json | --csv] [--workers N] FILE... | DIR
 //	stave bench [--json]
 //	stave version
 //
 // Exit status: 0 on success, 1 when the model is wrong (the message names the
-// offending item), 2 on misuse of the command line.
+// offending item), 2 on misuse of the command line. check exits with its
+// worst member's: 1 when any was refused, else 3 when any failed a check.
 package main
 
 import (
@@ -43,6 +45,7 @@ const usage = `usage:
   stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet] [--dpi N]
                [--points N] [--units SI|US]
   stave converge [--json] [--max N] FILE
+  stave check [--json | --csv] [--workers N] FILE... | DIR
   stave bench [--json]
   stave version
 `
@@ -67,6 +70,10 @@ func run(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprint(stderr, usage)
 		return 2
 	}
+	var se statusError
+	if errors.As(err, &se) {
+		return se.status
+	}
 	return 1
 }
 
@@ -81,6 +88,8 @@ func dispatch(args []string, stdout io.Writer) error {
 		return exportCommand(args[1:], stdout)
 	case "converge":
 		return convergeCommand(args[1:], stdout)
+	case "check":
+		return checkCommand(args[1:], stdout, os.Stderr)
 	case "bench":
 		return benchCommand(args[1:], stdout)
 	case "version", "--version":
