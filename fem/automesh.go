@@ -82,7 +82,7 @@ func (p *Member) automaticCounts() ([]int, string) {
 	for k, e := range exacts {
 		scale := exactScales(e)
 		l := &p.loadSets[k]
-		sections := sectionTable(&p.model, l.TemperatureChange)
+		sections := sectionTable(&p.model, l)
 		for j := range n {
 			a, b := p.keys[j], p.keys[j+1]
 			d := elementData{start: a, length: b - a, sectionData: sections[p.model.SegmentAt(0.5*(a+b))],

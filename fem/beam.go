@@ -131,9 +131,15 @@ func (d *elementData) beamStiffness() localMatrix {
 }
 
 // beamLoads is the consistent nodal load vector ∫N·q dx, plus N·P + N'·C
-// for the point loads inside (the work of a moment C is C·w').
+// for the point loads inside (the work of a moment C is C·w') and the
+// thermal moments of a temperature difference through the depth.
 func (d *elementData) beamLoads() localVector {
 	f := d.hermiteLoadsOn(d.start, d.start+d.length)
+	// The free thermal curvature κ does the work ∫N''·EI·κ dx =
+	// EI·κ·(N'(end) − N'(start)): ∓EI·κ on the rotations, nothing on w.
+	thermal := d.flexuralRigidity * d.thermalCurvature
+	f[1] -= thermal
+	f[3] += thermal
 	for _, p := range d.points {
 		n, d1, _, _ := hermite((p.X-d.start)/d.length, d.length)
 		for a := range f {

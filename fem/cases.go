@@ -27,6 +27,9 @@ type LoadCase struct {
 	// Settlements says the supports' settlements (Support.Settlement) act
 	// in this case.
 	Settlements bool
+	// ThermalGradient says the segments' temperature differences through
+	// the depth (Segment.TemperatureDifference) act in this case.
+	ThermalGradient bool
 	// BySpan marks a load placed span by span (pattern loading): the
 	// envelope takes, at every point, the arrangement of loaded spans that
 	// is worst there (SpanLoads).
@@ -106,6 +109,11 @@ func (m *Model) LoadSet(i int) Model {
 	if !lc.Settlements {
 		for k := range c.Supports {
 			c.Supports[k].Settlement = [3]float64{}
+		}
+	}
+	if !lc.ThermalGradient {
+		for k := range c.Segments {
+			c.Segments[k].TemperatureDifference = 0
 		}
 	}
 	return c
@@ -218,9 +226,10 @@ func CombineSolutions(sols []*Solution, factors []float64) (*Solution, error) {
 	// The thermal strain is a load: combine it too.
 	out.sections = slices.Clone(first.sections)
 	for i := range out.sections {
-		out.sections[i].thermalStrain = 0
+		out.sections[i].thermalStrain, out.sections[i].thermalCurvature = 0, 0
 		for k, s := range sols {
 			out.sections[i].thermalStrain += factors[k] * s.sections[i].thermalStrain
+			out.sections[i].thermalCurvature += factors[k] * s.sections[i].thermalCurvature
 		}
 	}
 	for j := range 3 {
@@ -256,6 +265,7 @@ func CombineExact(exacts []*Exact, factors []float64) (*Exact, error) {
 			s, o := &e.stretches[j], &out.stretches[j]
 			o.thermalStrain += f * s.thermalStrain
 			o.bar.offset += f * s.bar.offset
+			o.beam.offset += f * s.beam.offset
 			for c := range s.bar.coeff {
 				o.bar.coeff[c] += f * s.bar.coeff[c]
 			}
@@ -314,6 +324,9 @@ func (m *Model) SpanLoads(c int) []Model {
 	base.Gravity, base.TemperatureChange = [2]float64{}, 0
 	for k := range base.Supports {
 		base.Supports[k].Settlement = [3]float64{}
+	}
+	for k := range base.Segments {
+		base.Segments[k].TemperatureDifference = 0
 	}
 	for k, sp := range spans {
 		share := base.Clone()

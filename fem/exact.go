@@ -42,7 +42,9 @@ type exactStretch struct {
 // list of coefficients.
 type stretchSolution struct {
 	stiffness float64 // EA (N) for the bar, EI (N·m²) for the beam
-	// offset is added to the first section action: −EA·α·ΔT turns EA·u' into N.
+	// offset is added to the section action odeProblem.offsetAction names:
+	// −EA·α·ΔT turns EA·u' into N, −EI·κ (κ the free thermal curvature)
+	// turns EI·w'' into M.
 	offset float64
 	// order is the number of homogeneous solutions (2 for the bar, 4 for the beam).
 	order int
@@ -75,6 +77,8 @@ type odeProblem struct {
 	order int
 	dofs  []Dof
 	signs []float64
+	// offsetAction is the action the solution's offset adds to.
+	offsetAction int
 }
 
 var (
@@ -82,7 +86,8 @@ var (
 	exactBar = odeProblem{order: 2, dofs: []Dof{Axial}, signs: []float64{1}}
 	// Beam: T_0 = −V = −EI·w''' (V jumps by +P under an upward force P) and
 	// T_1 = M = EI·w'' (M jumps by −C under a counter-clockwise moment C).
-	exactBeam = odeProblem{order: 4, dofs: []Dof{Transverse, Rotation}, signs: []float64{-1, 1}}
+	// M = EI·(w'' − κ) under a free thermal curvature κ.
+	exactBeam = odeProblem{order: 4, dofs: []Dof{Transverse, Rotation}, signs: []float64{-1, 1}, offsetAction: 1}
 )
 
 // keyPoint gathers what acts at one key point.
@@ -244,6 +249,9 @@ func newStretch(m *Model, l *Loads, j int) exactStretch {
 	s.bar = newStretchSolution(exactBar.order, ea, s.length, -axial[0], -axial[1])
 	s.bar.offset = -ea * s.thermalStrain
 	s.beam = newStretchSolution(exactBeam.order, ei, s.length, transverse[0], transverse[1])
+	if l.TemperatureDifference != nil {
+		s.beam.offset = -ei * mat.ThermalExpansion * l.TemperatureDifference[m.SegmentAt(0.5*(a+b))] / sec.depth()
+	}
 	return s
 }
 
@@ -350,7 +358,7 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 	action := func(j, i int, t, scale float64) {
 		s := e.solution(p, j)
 		term(j, p.order-1-i, t, scale*p.signs[i]*s.stiffness)
-		if i == 0 {
+		if i == p.offsetAction {
 			sys.rhs(row, -scale*s.offset)
 		}
 	}
@@ -467,7 +475,7 @@ func (e *Exact) At(x float64, side Side) Fields {
 		Rotation:          derivativeAt(s.beam.coeff, 1, t) / h,
 		AxialForce:        s.bar.stiffness*derivativeAt(s.bar.coeff, 1, t)/h + s.bar.offset,
 		ShearForce:        s.beam.stiffness * derivativeAt(s.beam.coeff, 3, t) / (h * h * h),
-		BendingMoment:     s.beam.stiffness * derivativeAt(s.beam.coeff, 2, t) / (h * h),
+		BendingMoment:     s.beam.stiffness*derivativeAt(s.beam.coeff, 2, t)/(h*h) + s.beam.offset,
 	}
 	f.AxialStress = f.AxialForce / s.area
 	f.BendingStress = f.BendingMoment * s.fibre / s.secondMoment

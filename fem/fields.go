@@ -91,7 +91,7 @@ func (s *Solution) fieldsAt(e int, xi float64, f *Fields) {
 	fromStart := a[Rotation] + d*(g.curvature+g.third*d/2)
 	fromEnd := b[Rotation] - rest*(curvature+g.third*rest/2)
 	f.Rotation = (1-xi)*fromStart + xi*fromEnd
-	f.BendingMoment = sec.flexuralRigidity * curvature
+	f.BendingMoment = sec.flexuralRigidity * (curvature - sec.thermalCurvature)
 	f.ShearForce = sec.flexuralRigidity * g.third
 	sec.stresses(f)
 }
@@ -157,7 +157,7 @@ func (s *Solution) elementInterval(e int, v *Interval) {
 	p[QAxialForce][0] = sec.axialRigidity * (g.slope + 4*g.bubble/h - sec.thermalStrain)
 	p[QAxialForce][1] = -8 * sec.axialRigidity * g.bubble / h
 	p[QShearForce][0] = sec.flexuralRigidity * g.third
-	p[QBendingMoment][0] = sec.flexuralRigidity * g.curvature
+	p[QBendingMoment][0] = sec.flexuralRigidity * (g.curvature - sec.thermalCurvature)
 	p[QBendingMoment][1] = sec.flexuralRigidity * g.third * h
 	// The ends, as fieldsAt computes them at ξ = 0 and 1 (to the bit, but
 	// for the sign of a zero): the displacements are the nodal ones.
@@ -168,7 +168,7 @@ func (s *Solution) elementInterval(e int, v *Interval) {
 	*end = Fields{X: el.Start + h, AxialDisplacement: b[Axial], Deflection: b[Transverse], Rotation: b[Rotation],
 		AxialForce:    sec.axialRigidity * (g.slope + -4*g.bubble/h - sec.thermalStrain),
 		ShearForce:    p[QShearForce][0],
-		BendingMoment: sec.flexuralRigidity * (g.curvature + g.third*h)}
+		BendingMoment: sec.flexuralRigidity * (g.curvature + g.third*h - sec.thermalCurvature)}
 	sec.stresses(start)
 	sec.stresses(end)
 	// The stresses' constant terms are the start's; their slopes follow

@@ -302,7 +302,8 @@ func (r *stretchRefiner) finish(e int, c taylor) {
 		bar += 16.0 / 3 * (f.bubble / h) * (f.bubble / h)
 	}
 	// ∫(w'' + w'''·s)² ds over [0, h].
-	bend := c.curvature*c.curvature + h*c.third*(c.curvature+h*c.third/3)
+	k0 := c.curvature - r.thermalCurvature // the curvature less the free thermal one
+	bend := k0*k0 + h*c.third*(k0+h*c.third/3)
 	r.energy += h * (r.axialRigidity*bar + r.flexuralRigidity*bend)
 	r.fields[e] = f
 	d := r.disp[e]

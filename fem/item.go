@@ -73,15 +73,17 @@ type Property int
 const (
 	NoProperty Property = iota // the item as a whole
 
-	StartProperty            // Segment.Start
-	EndProperty              // Segment.End
-	AreaProperty             // Segment.Section.Area
-	SecondMomentProperty     // Segment.Section.SecondMoment
-	FibreDistanceProperty    // Segment.Section.FibreDistance
-	ElasticProperty          // Segment.Material.Elastic
-	DensityProperty          // Segment.Material.Density
-	ThermalExpansionProperty // Segment.Material.ThermalExpansion
-	AllowableProperty        // Segment.Material.Allowable
+	StartProperty                 // Segment.Start
+	EndProperty                   // Segment.End
+	AreaProperty                  // Segment.Section.Area
+	SecondMomentProperty          // Segment.Section.SecondMoment
+	FibreDistanceProperty         // Segment.Section.FibreDistance
+	ElasticProperty               // Segment.Material.Elastic
+	DensityProperty               // Segment.Material.Density
+	ThermalExpansionProperty      // Segment.Material.ThermalExpansion
+	AllowableProperty             // Segment.Material.Allowable
+	DepthProperty                 // Segment.Section.Depth
+	TemperatureDifferenceProperty // Segment.TemperatureDifference
 
 	PositionProperty        // Support.X or PointLoad.X
 	KindProperty            // Support.Kind

@@ -31,6 +31,18 @@ type Section struct {
 	Area          float64 // A, m²
 	SecondMoment  float64 // I about the bending axis, m⁴
 	FibreDistance float64 // c, distance from the neutral axis to the extreme fibre, m
+	// Depth is the distance between the bottom and top fibres, m, over
+	// which a temperature difference bends the member; 0 means twice the
+	// fibre distance (a section symmetric about its neutral axis).
+	Depth float64
+}
+
+// depth is the section's depth for thermal bending, m (see Depth).
+func (s Section) depth() float64 {
+	if s.Depth > 0 {
+		return s.Depth
+	}
+	return 2 * s.FibreDistance
 }
 
 // Material holds the material properties of a segment.
@@ -48,6 +60,11 @@ type Segment struct {
 	Start, End float64 // m
 	Section    Section
 	Material   Material
+	// TemperatureDifference is how much warmer the bottom fibre is than the
+	// top one, K (a roof beam in sun has it negative): it curves the
+	// segment by α·ΔT/depth, which restrained members resist with moments.
+	// In a model with load cases it acts in the cases marked ThermalGradient.
+	TemperatureDifference float64
 }
 
 // SupportKind says which motions a support restrains.

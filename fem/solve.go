@@ -42,6 +42,9 @@ type sectionData struct {
 	axialRigidity, flexuralRigidity float64 // EA (N), EI (N·m²)
 	area, secondMoment, fibre       float64 // A (m²), I (m⁴), c (m)
 	thermalStrain                   float64 // α·ΔT
+	// thermalCurvature is α·ΔT/depth of a temperature difference through
+	// the depth, 1/m: the free curvature, sagging positive (bottom warmer).
+	thermalCurvature float64
 }
 
 // conditionLimit is the condition number beyond which results are flagged:
@@ -140,7 +143,7 @@ func newStructure(p *Member, mesh Mesh) (*Structure, error) {
 	}
 	st.coarse = meshOn(m, st.keyX)
 	st.bar, st.beam = m.Formulations()
-	sections := sectionTable(m, 0)
+	sections := sectionTable(m, nil)
 	st.stretches = make([]elementData, len(st.coarse.Elements))
 	for j, e := range st.coarse.Elements {
 		st.stretches[j] = elementData{start: e.Start, length: e.End - e.Start, sectionData: sections[e.Segment]}
@@ -179,7 +182,7 @@ func (st *Structure) Solve(l *Loads) (*Solution, error) {
 	if len(l.Settlement) != len(m.Supports) || len(l.Keys) < 2 || math.Abs(l.Keys[len(l.Keys)-1]-m.Length()) > mergeTolerance*m.Length() {
 		return nil, fmt.Errorf("fem: the loads were gathered for another member or other supports: gather them on Structure.KeyPoints")
 	}
-	s := &Solution{Model: st.model, Mesh: mesh, sections: sectionTable(m, l.TemperatureChange), Condition: st.condition}
+	s := &Solution{Model: st.model, Mesh: mesh, sections: sectionTable(m, l), Condition: st.condition}
 	s.Warnings = append(s.Warnings, st.warnings...)
 	s.barOrder = m.Mesh.BarOrder
 	if s.barOrder == 0 {
@@ -261,9 +264,10 @@ func checkFinite(poison float64, s *Solution) error {
 // errNotFinite is the refusal of results that overflowed, by either solver.
 var errNotFinite = errors.New("the results are too large for floating point (a displacement, force, moment or stress is infinite or undefined): check the units and magnitudes of the section, material, springs and loads")
 
-// sectionTable gathers the section data of every segment under a uniform
-// change of temperature dT, K.
-func sectionTable(m *Model, dT float64) []sectionData {
+// sectionTable gathers the section data of every segment under the thermal
+// loads of l: its uniform change of temperature and the segments'
+// temperature differences through the depth.
+func sectionTable(m *Model, l *Loads) []sectionData {
 	out := make([]sectionData, len(m.Segments))
 	for i, seg := range m.Segments {
 		sec, mat := seg.Section, seg.Material
@@ -273,7 +277,12 @@ func sectionTable(m *Model, dT float64) []sectionData {
 			area:             sec.Area,
 			secondMoment:     sec.SecondMoment,
 			fibre:            sec.FibreDistance,
-			thermalStrain:    mat.ThermalExpansion * dT,
+		}
+		if l != nil {
+			out[i].thermalStrain = mat.ThermalExpansion * l.TemperatureChange
+			if l.TemperatureDifference != nil {
+				out[i].thermalCurvature = mat.ThermalExpansion * l.TemperatureDifference[i] / sec.depth()
+			}
 		}
 	}
 	return out

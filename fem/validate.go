@@ -127,6 +127,11 @@ func (m *Model) Validate() error {
 // only.
 func (v *validator) axialOnly(m *Model) {
 	v.axialOnlyLoads(m.PointLoads, m.DistributedLoad)
+	for i, s := range m.Segments {
+		if s.TemperatureDifference != 0 {
+			v.add(Place{Item: Item{Kind: SegmentItem, Index: i}, Property: TemperatureDifferenceProperty}, fmt.Sprintf("segment %d is warmer on one face than the other, which bends it, but %s: remove the temperature difference, or let the member bend", i+1, axialOnlyWhy))
+		}
+	}
 	if m.Gravity[1] != 0 {
 		for _, s := range m.Segments {
 			if s.Material.Density > 0 {
@@ -211,7 +216,7 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 		default:
 			names[strings.ToLower(lc.Name)] = c
 		}
-		if len(lc.PointLoads) == 0 && len(lc.DistributedLoad) == 0 && !lc.SelfWeight && lc.TemperatureChange == 0 && !lc.Settlements {
+		if len(lc.PointLoads) == 0 && len(lc.DistributedLoad) == 0 && !lc.SelfWeight && lc.TemperatureChange == 0 && !lc.Settlements && !lc.ThermalGradient {
 			v.add(Place{Item: it}, fmt.Sprintf("load case %q is empty: add loads to it, or delete it", lc.Name))
 		}
 		if !isFinite(lc.TemperatureChange) {
@@ -325,6 +330,13 @@ func (v *validator) segments(segs []Segment) {
 		v.property(at(AllowableProperty), "the allowable stress", s.Material.Allowable, "Pa", true)
 		if a := s.Material.ThermalExpansion; !isFinite(a) {
 			v.add(at(ThermalExpansionProperty), fmt.Sprintf("segment %d: the thermal expansion coefficient is %v: enter a finite value in 1/K", i+1, a))
+		}
+		v.property(at(DepthProperty), "the depth", s.Section.Depth, "m", true)
+		switch dt := s.TemperatureDifference; {
+		case !isFinite(dt):
+			v.add(at(TemperatureDifferenceProperty), fmt.Sprintf("segment %d: the temperature difference through the depth is %v: enter a finite value in K", i+1, dt))
+		case dt != 0 && !(s.Section.depth() > 0):
+			v.add(at(DepthProperty), fmt.Sprintf("segment %d has a temperature difference through its depth but no depth to spread it over: enter the section's depth (or its extreme fibre distance, for a symmetric section)", i+1))
 		}
 		v.segmentStiffness(it, s)
 	}

@@ -396,7 +396,7 @@ func (s *exactStretch) interval(t0, scale, start, h float64, v *Interval) {
 	p[QRotation] = Polynomial{w[1] * ih, 2 * w[2] * ih, 3 * w[3] * ih, 4 * w[4] * ih, 5 * w[5] * ih}
 	p[QAxialForce] = Polynomial{ea*u[1] + s.bar.offset, 2 * ea * u[2], 3 * ea * u[3]}
 	p[QShearForce] = Polynomial{6 * ei * ih * w[3], 24 * ei * ih * w[4], 60 * ei * ih * w[5]}
-	p[QBendingMoment] = Polynomial{2 * ei * w[2], 6 * ei * w[3], 12 * ei * w[4], 20 * ei * w[5]}
+	p[QBendingMoment] = Polynomial{2*ei*w[2] + s.beam.offset, 6 * ei * w[3], 12 * ei * w[4], 20 * ei * w[5]}
 	n, m := &p[QAxialForce], &p[QBendingMoment]
 	p[QAxialStress] = Polynomial{n[0] * ia, n[1] * ia, n[2] * ia}
 	p[QBendingStress] = Polynomial{m[0] * ci, m[1] * ci, m[2] * ci, m[3] * ci}

@@ -460,6 +460,7 @@ func (r *reader) segment(f *fields) fem.Segment {
 		Area:          section.number("area", "m²", true),
 		SecondMoment:  section.number("second_moment", "m⁴", true),
 		FibreDistance: section.number("fibre_distance", "m", true),
+		Depth:         section.number("depth", "m", false),
 	}
 	section.finish()
 	material := f.object("material", true, `"material": {"name", "elastic_modulus", ...}`)
@@ -471,6 +472,7 @@ func (r *reader) segment(f *fields) fem.Segment {
 		Allowable:        material.number("allowable_stress", "Pa", false),
 	}
 	material.finish()
+	s.TemperatureDifference = f.number("temperature_difference", "K", false)
 	f.finish()
 	return s
 }

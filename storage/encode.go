@@ -46,15 +46,17 @@ type (
 		Segments  []fileSegment `json:"segments"`
 	}
 	fileSegment struct {
-		Start    number       `json:"start"`
-		End      number       `json:"end"`
-		Section  fileSection  `json:"section"`
-		Material fileMaterial `json:"material"`
+		Start                 number       `json:"start"`
+		End                   number       `json:"end"`
+		Section               fileSection  `json:"section"`
+		Material              fileMaterial `json:"material"`
+		TemperatureDifference number       `json:"temperature_difference,omitempty"`
 	}
 	fileSection struct {
 		Area          number `json:"area"`
 		SecondMoment  number `json:"second_moment"`
 		FibreDistance number `json:"fibre_distance"`
+		Depth         number `json:"depth,omitempty"`
 	}
 	fileMaterial struct {
 		Name             string `json:"name,omitempty"`
@@ -265,6 +267,7 @@ func (c *converter) toFile(p *Project) fileProject {
 				Area:          c.num(path+".section.area", s.Section.Area),
 				SecondMoment:  c.num(path+".section.second_moment", s.Section.SecondMoment),
 				FibreDistance: c.num(path+".section.fibre_distance", s.Section.FibreDistance),
+				Depth:         c.num(path+".section.depth", s.Section.Depth),
 			},
 			Material: fileMaterial{
 				Name:             s.Material.Name,
@@ -273,6 +276,7 @@ func (c *converter) toFile(p *Project) fileProject {
 				ThermalExpansion: c.num(path+".material.thermal_expansion", s.Material.ThermalExpansion),
 				Allowable:        c.num(path+".material.allowable_stress", s.Material.Allowable),
 			},
+			TemperatureDifference: c.num(path+".temperature_difference", s.TemperatureDifference),
 		}
 	}
 	for i, h := range m.Hinges {

@@ -98,6 +98,10 @@ func propertyKey(at fem.Place) string {
 		return "material.thermal_expansion"
 	case fem.AllowableProperty:
 		return "material.allowable_stress"
+	case fem.DepthProperty:
+		return "section.depth"
+	case fem.TemperatureDifferenceProperty:
+		return "temperature_difference"
 	case fem.PositionProperty:
 		return "x"
 	case fem.KindProperty:
