@@ -28,6 +28,25 @@ type exactStretch struct {
 	secondMoment  float64 // I, m⁴
 	thermalStrain float64 // α·ΔT
 	bar, beam     stretchSolution
+	// shear is EI/(G·As) of a Timoshenko stretch, m², 0 for Euler–
+	// Bernoulli; load is its transverse line load at both ends, N/m, which
+	// the shear deformation adds to θ, M and V (shearTerms).
+	shear float64
+	load  [2]float64
+}
+
+// shearTerms are what shear deformation adds, at t, to the rotation and
+// the bending moment and shear force read off the deflection w of a
+// Timoshenko stretch: with θ = w′ + g·θ″, M = EI·θ′ and V = EI·θ″ = M′ under
+// a linear load q (θ‴ = q/EI), θ = w′ + g·w‴ + g²·q′/EI, M = EI·w″ + g·q
+// and V = EI·w‴ + g·q′ (g = EI/(G·As)). The w‴ part of θ is the caller's.
+func (s *exactStretch) shearTerms(t float64) (rotation, moment, shear float64) {
+	if s.shear == 0 {
+		return 0, 0, 0
+	}
+	slope := (s.load[1] - s.load[0]) / s.length // q′, N/m²
+	q := s.load[0] + (s.load[1]-s.load[0])*t
+	return s.shear * s.shear * slope / s.beam.stiffness, s.shear * q, s.shear * slope
 }
 
 // stretchSolution is the closed form of one problem (the bar's u or the
@@ -249,6 +268,7 @@ func newStretch(m *Model, l *Loads, j int) exactStretch {
 	s.bar = newStretchSolution(exactBar.order, ea, s.length, -axial[0], -axial[1])
 	s.bar.offset = -ea * s.thermalStrain
 	s.beam = newStretchSolution(exactBeam.order, ei, s.length, transverse[0], transverse[1])
+	s.shear, s.load = seg.shearFlexibility(), transverse
 	if l.TemperatureDifference != nil {
 		s.beam.offset = -ei * mat.ThermalExpansion * l.TemperatureDifference[m.SegmentAt(0.5*(a+b))] / sec.depth()
 	}
@@ -354,12 +374,32 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 		}
 		sys.rhs(row, -f*s.particular(d, t))
 	}
+	shear := func(j int) float64 {
+		if p.order == exactBeam.order {
+			return e.stretches[j].shear
+		}
+		return 0
+	}
+	// motion adds scale·(the motion of dofs[i]) of stretch j at t to the
+	// row: y^(i), and for the rotation of a Timoshenko beam its shear terms.
+	motion := func(j, i int, t, scale float64) {
+		term(j, i, t, scale)
+		if g := shear(j); g != 0 && i == 1 {
+			term(j, 3, t, scale*g)
+			rot, _, _ := e.stretches[j].shearTerms(t)
+			sys.rhs(row, -scale*rot)
+		}
+	}
 	// action adds scale·T_i of stretch j at t to the row.
 	action := func(j, i int, t, scale float64) {
 		s := e.solution(p, j)
 		term(j, p.order-1-i, t, scale*p.signs[i]*s.stiffness)
 		if i == p.offsetAction {
 			sys.rhs(row, -scale*s.offset)
+		}
+		if shear(j) != 0 {
+			_, m, v := e.stretches[j].shearTerms(t)
+			sys.rhs(row, -scale*p.signs[i]*[2]float64{v, m}[i])
 		}
 	}
 	next := 0 // index into l.held
@@ -380,13 +420,13 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 					action(k-1, i, 1, 1)
 				} else {
 					action(k-1, i, 1, kp.release)
-					term(k, i, 0, -1)
-					term(k-1, i, 1, 1)
+					motion(k, i, 0, -1)
+					motion(k-1, i, 1, 1)
 				}
 				row++
 			case k > 0 && k < nStretch:
-				term(k, i, 0, 1)
-				term(k-1, i, 1, -1)
+				motion(k, i, 0, 1)
+				motion(k-1, i, 1, -1)
 				row++
 			}
 			if k < nStretch {
@@ -410,7 +450,7 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 				if r.dof != d {
 					continue
 				}
-				term(side, i, t, 1)
+				motion(side, i, t, 1)
 				sys.add(row, l.heldCol[q], r.compliance)
 				sys.rhs(row, r.settlement)
 				row++
@@ -476,6 +516,12 @@ func (e *Exact) At(x float64, side Side) Fields {
 		AxialForce:        s.bar.stiffness*derivativeAt(s.bar.coeff, 1, t)/h + s.bar.offset,
 		ShearForce:        s.beam.stiffness * derivativeAt(s.beam.coeff, 3, t) / (h * h * h),
 		BendingMoment:     s.beam.stiffness*derivativeAt(s.beam.coeff, 2, t)/(h*h) + s.beam.offset,
+	}
+	if s.shear != 0 {
+		rot, m, v := s.shearTerms(t)
+		f.Rotation += s.shear*derivativeAt(s.beam.coeff, 3, t)/(h*h*h) + rot
+		f.BendingMoment += m
+		f.ShearForce += v
 	}
 	f.AxialStress = f.AxialForce / s.area
 	f.BendingStress = f.BendingMoment * s.fibre / s.secondMoment

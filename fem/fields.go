@@ -84,6 +84,9 @@ func (s *Solution) fieldsAt(e int, xi float64, f *Fields) {
 	f.AxialForce = sec.axialRigidity * (g.slope + (4-8*xi)*g.bubble/h - sec.thermalStrain)
 
 	n := hermiteValues(xi, h)
+	if sec.shear != 0 { // the interdependent interpolation of a Timoshenko element
+		n, _ = beamShape(xi, h, 12*sec.shear/(h*h))
+	}
 	f.Deflection = n[0]*a[Transverse] + n[1]*a[Rotation] + n[2]*b[Transverse] + n[3]*b[Rotation]
 	d, rest := xi*h, (1-xi)*h
 	curvature := g.curvature + g.third*d
@@ -147,7 +150,7 @@ func (s *Solution) elementInterval(e int, v *Interval) {
 	p[QAxialDisplacement][1] = s.Displacement[e+1][Axial] - a[Axial] + 4*g.bubble
 	p[QAxialDisplacement][2] = -4 * g.bubble
 	p[QDeflection][0] = a[Transverse]
-	p[QDeflection][1] = h * a[Rotation]
+	p[QDeflection][1] = h * (a[Rotation] - sec.shear*g.third) // w′ = θ − g·θ″
 	p[QDeflection][2] = h * h * g.curvature / 2
 	p[QDeflection][3] = h * h * h * g.third / 6
 	p[QRotation][0] = a[Rotation]

@@ -84,6 +84,10 @@ const (
 	AllowableProperty             // Segment.Material.Allowable
 	DepthProperty                 // Segment.Section.Depth
 	TemperatureDifferenceProperty // Segment.TemperatureDifference
+	ShearAreaProperty             // Segment.Section.ShearArea
+	ShearCoefficientProperty      // Segment.Section.ShearCoefficient
+	ShearModulusProperty          // Segment.Material.ShearModulus
+	PoissonProperty               // Segment.Material.Poisson
 
 	PositionProperty        // Support.X or PointLoad.X
 	KindProperty            // Support.Kind

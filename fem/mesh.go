@@ -46,7 +46,8 @@ func systemKeyPoints(m *Model) []float64 {
 // changes only what is read off the fields, such as stresses).
 func sameStiffness(a, b Segment) bool {
 	ea, eb := a.Material, b.Material
-	return ea.Elastic*a.Section.Area == eb.Elastic*b.Section.Area &&
+	return a.shearFlexibility() == b.shearFlexibility() &&
+		ea.Elastic*a.Section.Area == eb.Elastic*b.Section.Area &&
 		ea.Elastic*a.Section.SecondMoment == eb.Elastic*b.Section.SecondMoment &&
 		ea.ThermalExpansion == eb.ThermalExpansion
 }

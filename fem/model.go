@@ -35,6 +35,20 @@ type Section struct {
 	// which a temperature difference bends the member; 0 means twice the
 	// fibre distance (a section symmetric about its neutral axis).
 	Depth float64
+	// ShearArea is the area that carries the shear force in shear
+	// deformation, As, m²; 0 means ShearCoefficient·A.
+	ShearArea float64
+	// ShearCoefficient is κ with As = κ·A (5/6 for a solid rectangle,
+	// about the web's share of A for an I-section), when ShearArea is 0.
+	ShearCoefficient float64
+}
+
+// shearArea is As, given or from κ·A.
+func (s Section) shearArea() float64 {
+	if s.ShearArea > 0 {
+		return s.ShearArea
+	}
+	return s.ShearCoefficient * s.Area
 }
 
 // depth is the section's depth for thermal bending, m (see Depth).
@@ -52,6 +66,18 @@ type Material struct {
 	Density          float64 // ρ, kg/m³ (used for self-weight)
 	ThermalExpansion float64 // α, 1/K
 	Allowable        float64 // allowable (or yield) stress, Pa; 0 means not given
+	// ShearModulus is G, Pa, for shear deformation; 0 means E/(2(1+ν)).
+	ShearModulus float64
+	// Poisson is Poisson's ratio ν, which gives G when ShearModulus is 0.
+	Poisson float64
+}
+
+// shearModulus is G, given or from E and ν.
+func (m Material) shearModulus() float64 {
+	if m.ShearModulus > 0 {
+		return m.ShearModulus
+	}
+	return m.Elastic / (2 * (1 + m.Poisson))
 }
 
 // Segment is a stretch of the member with one section and one material.
@@ -65,6 +91,19 @@ type Segment struct {
 	// segment by α·ΔT/depth, which restrained members resist with moments.
 	// In a model with load cases it acts in the cases marked ThermalGradient.
 	TemperatureDifference float64
+	// ShearDeformation makes the segment a Timoshenko beam: its shear
+	// stiffness G·As adds shear deflection to bending (Section.ShearArea or
+	// ShearCoefficient, Material.ShearModulus or Poisson).
+	ShearDeformation bool
+}
+
+// shearFlexibility is EI/(G·As) of a segment with shear deformation, m²;
+// 0 without (Euler–Bernoulli).
+func (s Segment) shearFlexibility() float64 {
+	if !s.ShearDeformation {
+		return 0
+	}
+	return s.Material.Elastic * s.Section.SecondMoment / (s.Material.shearModulus() * s.Section.shearArea())
 }
 
 // SupportKind says which motions a support restrains.

@@ -45,6 +45,8 @@ type sectionData struct {
 	// thermalCurvature is α·ΔT/depth of a temperature difference through
 	// the depth, 1/m: the free curvature, sagging positive (bottom warmer).
 	thermalCurvature float64
+	// shear is EI/(G·As), m², of a Timoshenko beam; 0 for Euler–Bernoulli.
+	shear float64
 }
 
 // conditionLimit is the condition number beyond which results are flagged:
@@ -277,6 +279,7 @@ func sectionTable(m *Model, l *Loads) []sectionData {
 			area:             sec.Area,
 			secondMoment:     sec.SecondMoment,
 			fibre:            sec.FibreDistance,
+			shear:            seg.shearFlexibility(),
 		}
 		if l != nil {
 			out[i].thermalStrain = mat.ThermalExpansion * l.TemperatureChange

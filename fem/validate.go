@@ -332,6 +332,7 @@ func (v *validator) segments(segs []Segment) {
 			v.add(at(ThermalExpansionProperty), fmt.Sprintf("segment %d: the thermal expansion coefficient is %v: enter a finite value in 1/K", i+1, a))
 		}
 		v.property(at(DepthProperty), "the depth", s.Section.Depth, "m", true)
+		v.shearDeformation(i, s)
 		switch dt := s.TemperatureDifference; {
 		case !isFinite(dt):
 			v.add(at(TemperatureDifferenceProperty), fmt.Sprintf("segment %d: the temperature difference through the depth is %v: enter a finite value in K", i+1, dt))
@@ -434,6 +435,28 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 				v.finite(Place{Item: it, Property: SettlementProperty, Dof: d}, fmt.Sprintf("the %s settlement", d), s.Settlement[d], dofUnits[d])
 			}
 		}
+	}
+}
+
+// shearDeformation checks what a Timoshenko segment needs: a shear area
+// (given, or a coefficient of the area) and a shear modulus (given, or from
+// Poisson's ratio).
+func (v *validator) shearDeformation(i int, s Segment) {
+	at := func(p Property) Place { return Place{Item: Item{Kind: SegmentItem, Index: i}, Property: p} }
+	v.property(at(ShearAreaProperty), "the shear area", s.Section.ShearArea, "m²", true)
+	v.property(at(ShearCoefficientProperty), "the shear coefficient", s.Section.ShearCoefficient, "", true)
+	v.property(at(ShearModulusProperty), "the shear modulus", s.Material.ShearModulus, "Pa", true)
+	if nu := s.Material.Poisson; !isFinite(nu) || nu <= -1 || nu > 0.5 {
+		v.add(at(PoissonProperty), fmt.Sprintf("segment %d: Poisson's ratio is %s: enter a value above −1 and at most 0.5 (about 0.3 for steel)", i+1, fmtNumber(nu)))
+	}
+	if !s.ShearDeformation {
+		return
+	}
+	if !(s.Section.shearArea() > 0) {
+		v.add(at(ShearAreaProperty), fmt.Sprintf("segment %d deforms in shear but has no shear area: give the shear area, or the shear coefficient (5/6 for a solid rectangle)", i+1))
+	}
+	if !(s.Material.shearModulus() > 0) {
+		v.add(at(ShearModulusProperty), fmt.Sprintf("segment %d deforms in shear but has no shear modulus: give G, or Poisson's ratio for G = E/(2(1+ν))", i+1))
 	}
 }
 

@@ -397,6 +397,20 @@ func (s *exactStretch) interval(t0, scale, start, h float64, v *Interval) {
 	p[QAxialForce] = Polynomial{ea*u[1] + s.bar.offset, 2 * ea * u[2], 3 * ea * u[3]}
 	p[QShearForce] = Polynomial{6 * ei * ih * w[3], 24 * ei * ih * w[4], 60 * ei * ih * w[5]}
 	p[QBendingMoment] = Polynomial{2*ei*w[2] + s.beam.offset, 6 * ei * w[3], 12 * ei * w[4], 20 * ei * w[5]}
+	if g := s.shear; g != 0 {
+		// Shear deformation (exactStretch.shearTerms): θ gains g·w‴ and a
+		// constant, M gains g·q (linear in ξ), V gains g·q′.
+		rot, m0, v := s.shearTerms(t0)
+		_, m1, _ := s.shearTerms(t0 + scale)
+		third := g * ih * ih * ih
+		r := &p[QRotation]
+		r[0] += third*6*w[3] + rot
+		r[1] += third * 24 * w[4]
+		r[2] += third * 60 * w[5]
+		p[QBendingMoment][0] += m0
+		p[QBendingMoment][1] += m1 - m0
+		p[QShearForce][0] += v
+	}
 	n, m := &p[QAxialForce], &p[QBendingMoment]
 	p[QAxialStress] = Polynomial{n[0] * ia, n[1] * ia, n[2] * ia}
 	p[QBendingStress] = Polynomial{m[0] * ci, m[1] * ci, m[2] * ci, m[3] * ci}

@@ -457,10 +457,12 @@ func (r *reader) segment(f *fields) fem.Segment {
 	s := fem.Segment{Start: f.number("start", "m", true), End: f.number("end", "m", true)}
 	section := f.object("section", true, `"section": {"area", "second_moment", "fibre_distance"}`)
 	s.Section = fem.Section{
-		Area:          section.number("area", "m²", true),
-		SecondMoment:  section.number("second_moment", "m⁴", true),
-		FibreDistance: section.number("fibre_distance", "m", true),
-		Depth:         section.number("depth", "m", false),
+		Area:             section.number("area", "m²", true),
+		SecondMoment:     section.number("second_moment", "m⁴", true),
+		FibreDistance:    section.number("fibre_distance", "m", true),
+		Depth:            section.number("depth", "m", false),
+		ShearArea:        section.number("shear_area", "m²", false),
+		ShearCoefficient: section.number("shear_coefficient", "a ratio", false),
 	}
 	section.finish()
 	material := f.object("material", true, `"material": {"name", "elastic_modulus", ...}`)
@@ -470,9 +472,12 @@ func (r *reader) segment(f *fields) fem.Segment {
 		Density:          material.number("density", "kg/m³", false),
 		ThermalExpansion: material.number("thermal_expansion", "1/K", false),
 		Allowable:        material.number("allowable_stress", "Pa", false),
+		ShearModulus:     material.number("shear_modulus", "Pa", false),
+		Poisson:          material.number("poisson", "a ratio", false),
 	}
 	material.finish()
 	s.TemperatureDifference = f.number("temperature_difference", "K", false)
+	s.ShearDeformation = f.flag("shear_deformation", false)
 	f.finish()
 	return s
 }

@@ -51,12 +51,15 @@ type (
 		Section               fileSection  `json:"section"`
 		Material              fileMaterial `json:"material"`
 		TemperatureDifference number       `json:"temperature_difference,omitempty"`
+		ShearDeformation      bool         `json:"shear_deformation,omitempty"`
 	}
 	fileSection struct {
-		Area          number `json:"area"`
-		SecondMoment  number `json:"second_moment"`
-		FibreDistance number `json:"fibre_distance"`
-		Depth         number `json:"depth,omitempty"`
+		Area             number `json:"area"`
+		SecondMoment     number `json:"second_moment"`
+		FibreDistance    number `json:"fibre_distance"`
+		Depth            number `json:"depth,omitempty"`
+		ShearArea        number `json:"shear_area,omitempty"`
+		ShearCoefficient number `json:"shear_coefficient,omitempty"`
 	}
 	fileMaterial struct {
 		Name             string `json:"name,omitempty"`
@@ -64,6 +67,8 @@ type (
 		Density          number `json:"density,omitempty"`
 		ThermalExpansion number `json:"thermal_expansion,omitempty"`
 		Allowable        number `json:"allowable_stress,omitempty"`
+		ShearModulus     number `json:"shear_modulus,omitempty"`
+		Poisson          number `json:"poisson,omitempty"`
 	}
 	fileSupport struct {
 		X          number      `json:"x"`
@@ -264,10 +269,12 @@ func (c *converter) toFile(p *Project) fileProject {
 			Start: c.num(path+".start", s.Start),
 			End:   c.num(path+".end", s.End),
 			Section: fileSection{
-				Area:          c.num(path+".section.area", s.Section.Area),
-				SecondMoment:  c.num(path+".section.second_moment", s.Section.SecondMoment),
-				FibreDistance: c.num(path+".section.fibre_distance", s.Section.FibreDistance),
-				Depth:         c.num(path+".section.depth", s.Section.Depth),
+				Area:             c.num(path+".section.area", s.Section.Area),
+				SecondMoment:     c.num(path+".section.second_moment", s.Section.SecondMoment),
+				FibreDistance:    c.num(path+".section.fibre_distance", s.Section.FibreDistance),
+				Depth:            c.num(path+".section.depth", s.Section.Depth),
+				ShearArea:        c.num(path+".section.shear_area", s.Section.ShearArea),
+				ShearCoefficient: c.num(path+".section.shear_coefficient", s.Section.ShearCoefficient),
 			},
 			Material: fileMaterial{
 				Name:             s.Material.Name,
@@ -275,7 +282,10 @@ func (c *converter) toFile(p *Project) fileProject {
 				Density:          c.num(path+".material.density", s.Material.Density),
 				ThermalExpansion: c.num(path+".material.thermal_expansion", s.Material.ThermalExpansion),
 				Allowable:        c.num(path+".material.allowable_stress", s.Material.Allowable),
+				ShearModulus:     c.num(path+".material.shear_modulus", s.Material.ShearModulus),
+				Poisson:          c.num(path+".material.poisson", s.Material.Poisson),
 			},
+			ShearDeformation:      s.ShearDeformation,
 			TemperatureDifference: c.num(path+".temperature_difference", s.TemperatureDifference),
 		}
 	}

@@ -102,6 +102,14 @@ func propertyKey(at fem.Place) string {
 		return "section.depth"
 	case fem.TemperatureDifferenceProperty:
 		return "temperature_difference"
+	case fem.ShearAreaProperty:
+		return "section.shear_area"
+	case fem.ShearCoefficientProperty:
+		return "section.shear_coefficient"
+	case fem.ShearModulusProperty:
+		return "material.shear_modulus"
+	case fem.PoissonProperty:
+		return "material.poisson"
 	case fem.PositionProperty:
 		return "x"
 	case fem.KindProperty:
