@@ -211,6 +211,7 @@ func elementTable(m *Model, mesh Mesh, fine []float64, l *Loads) ([]elementData,
 		d.axialLoad, d.transverseLoad, d.breaks = l.loadsIn(e.Start, e.End)
 	}
 	markReleases(m, mesh.X, els)
+	groundUnder(m, els)
 	for _, p := range l.Points {
 		p.X = fine[nearest(fine, p.X)]
 		node := nearest(mesh.X, p.X)

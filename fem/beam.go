@@ -117,7 +117,8 @@ func hermiteValues(xi, h float64) [4]float64 {
 	return [4]float64{1 - 3*x2 + 2*x3, h * (xi - 2*x2 + x3), 3*x2 - 2*x3, h * (x3 - x2)}
 }
 
-// beamStiffness is the closed-form beam stiffness for (w1, θ1, w2, θ2): the
+// beamStiffness is the closed-form beam stiffness for (w1, θ1, w2, θ2), with
+// the foundation's under the element (addBeamGround): the
 // Hermite element (Hughes, The Finite Element Method; Strang & Fix, ch. 1;
 // from memory), or with shear deformation the interdependent
 // interpolation element, EI/((1+φ)h³)·[12, 6h, −12, 6h; 6h, (4+φ)h², −6h,
@@ -128,12 +129,14 @@ func (d *elementData) beamStiffness() localMatrix {
 	h := d.length
 	phi := d.phi(h)
 	c := d.flexuralRigidity / ((1 + phi) * h * h * h)
-	return localMatrix{
+	k := localMatrix{
 		{12 * c, 6 * h * c, -12 * c, 6 * h * c},
 		{6 * h * c, (4 + phi) * h * h * c, -6 * h * c, (2 - phi) * h * h * c},
 		{-12 * c, -6 * h * c, 12 * c, -6 * h * c},
 		{6 * h * c, (2 - phi) * h * h * c, -6 * h * c, (4 + phi) * h * h * c},
 	}
+	d.addBeamGround(&k)
+	return k
 }
 
 // phi is the shear parameter φ = 12·EI/(G·As·h²) of an element of length h
@@ -234,9 +237,10 @@ func hermiteLoads(h, q0, q1 float64) localVector {
 // M is linear, off by at most |q|·h²/8; w is the cubic Hermite interpolant,
 // off by at most |w⁗|·h⁴/384 = |q|·h⁴/(384·EI), and θ by at most
 // |q|·h³/(24·EI). The bending stress follows M·c/I; the combined stress
-// takes half the tolerance, the bar's error taking the other half.
+// takes half the tolerance, the bar's error taking the other half. On a
+// foundation the load the beam feels is q − k·w, bounded by |q| + k·|w|max.
 func (hermiteBeam) elementLength(d *elementData, s *fieldScales, tol float64) float64 {
-	q := max(math.Abs(d.transverseLoad[0]), math.Abs(d.transverseLoad[1]))
+	q := max(math.Abs(d.transverseLoad[0]), math.Abs(d.transverseLoad[1])) + d.modulus*s[QDeflection]
 	ei, section := d.flexuralRigidity, d.fibre/d.secondMoment
 	return min(
 		sizeLimit(q/2, 1, tol*s[QShearForce]),

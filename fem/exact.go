@@ -30,9 +30,10 @@ type exactStretch struct {
 	bar, beam     stretchSolution
 	// shear is EI/(G·As) of a Timoshenko stretch, m², 0 for Euler–
 	// Bernoulli; load is its transverse line load at both ends, N/m, which
-	// the shear deformation adds to θ, M and V (shearTerms).
-	shear float64
-	load  [2]float64
+	// the shear deformation adds to θ, M and V (shearTerms), and axialLoad
+	// its axial one.
+	shear           float64
+	load, axialLoad [2]float64
 }
 
 // shearTerms are what shear deformation adds, at t, to the rotation and
@@ -55,10 +56,11 @@ func (s *exactStretch) shearTerms(t float64) (rotation, moment, shear float64) {
 // φ_k whose constants c_k SolveExact finds and a particular solution y_p of
 // the stretch's loads. Working in t keeps all unknowns in metres whatever the
 // stretch length. The equations are written through basis, particular and
-// setConstants only, so a stretch of another kind (on an elastic
-// foundation, with shear deformation) brings its own functions; every
-// stretch today is polynomial: φ_k = t^k and y_p a polynomial, kept as one
-// list of coefficients.
+// setConstants only, so a stretch of another kind brings its own
+// functions. Off a foundation a stretch is polynomial: φ_k = t^k and y_p a
+// polynomial, kept as one list of coefficients. On one, φ_k are the
+// foundation's (groundBasis) and y_p is linear, its coefficients of 1 and
+// t following the constants.
 type stretchSolution struct {
 	stiffness float64 // EA (N) for the bar, EI (N·m²) for the beam
 	// offset is added to the section action odeProblem.offsetAction names:
@@ -70,16 +72,47 @@ type stretchSolution struct {
 	// coeff holds the constants of the homogeneous part (order terms)
 	// followed by the particular part of a linear load (two terms, known).
 	coeff []float64
+	// ground is the basis on a foundation; its order is 0 off one.
+	ground groundBasis
 }
 
+// polynomial reports whether the solution is a polynomial in t.
+func (s *stretchSolution) polynomial() bool { return s.ground.order == 0 }
+
 // basis is the d-th derivative in t of the k-th homogeneous solution at t.
-func (s *stretchSolution) basis(k, d int, t float64) float64 { return monomialDerivative(k, d, t) }
+func (s *stretchSolution) basis(k, d int, t float64) float64 {
+	if s.polynomial() {
+		return monomialDerivative(k, d, t)
+	}
+	return s.ground.derivative(k, d, t)
+}
 
 // particular is the d-th derivative in t of the particular solution at t.
 func (s *stretchSolution) particular(d int, t float64) float64 {
+	if !s.polynomial() {
+		switch d {
+		case 0:
+			return s.coeff[s.order] + s.coeff[s.order+1]*t
+		case 1:
+			return s.coeff[s.order+1]
+		}
+		return 0
+	}
 	v := 0.0
 	for k := s.order; k < len(s.coeff); k++ {
 		v += s.coeff[k] * monomialDerivative(k, d, t)
+	}
+	return v
+}
+
+// derivative is the d-th derivative in t of the solution at t.
+func (s *stretchSolution) derivative(d int, t float64) float64 {
+	if s.polynomial() {
+		return derivativeAt(s.coeff, d, t)
+	}
+	v := s.particular(d, t)
+	for k := range s.order {
+		v += s.coeff[k] * s.ground.derivative(k, d, t)
 	}
 	return v
 }
@@ -264,11 +297,20 @@ func newStretch(m *Model, l *Loads, j int) exactStretch {
 	}
 	ea, ei := mat.Elastic*sec.Area, mat.Elastic*sec.SecondMoment
 	axial, transverse := l.Axial[j], l.Transverse[j]
-	// EA·u″ = −p and EI·w⁗ = q.
-	s.bar = newStretchSolution(exactBar.order, ea, s.length, -axial[0], -axial[1])
+	// EA·u″ = −p and EI·w⁗ = q, with −kₐ·u and +k·w on a foundation.
+	k, ka := m.foundationAt(0.5 * (a + b))
+	if ka > 0 {
+		s.bar = newGroundSolution(exactBar.order, ea, s.length, ka, -axial[0], -axial[1])
+	} else {
+		s.bar = newStretchSolution(exactBar.order, ea, s.length, -axial[0], -axial[1])
+	}
 	s.bar.offset = -ea * s.thermalStrain
-	s.beam = newStretchSolution(exactBeam.order, ei, s.length, transverse[0], transverse[1])
-	s.shear, s.load = seg.shearFlexibility(), transverse
+	if k > 0 {
+		s.beam = newGroundSolution(exactBeam.order, ei, s.length, k, transverse[0], transverse[1])
+	} else {
+		s.beam = newStretchSolution(exactBeam.order, ei, s.length, transverse[0], transverse[1])
+	}
+	s.shear, s.load, s.axialLoad = seg.shearFlexibility(), transverse, axial
 	if l.TemperatureDifference != nil {
 		s.beam.offset = -ei * mat.ThermalExpansion * l.TemperatureDifference[m.SegmentAt(0.5*(a+b))] / sec.depth()
 	}
@@ -510,16 +552,16 @@ func (e *Exact) At(x float64, side Side) Fields {
 	h := s.length
 	f := Fields{
 		X:                 s.start + t*h,
-		AxialDisplacement: derivativeAt(s.bar.coeff, 0, t),
-		Deflection:        derivativeAt(s.beam.coeff, 0, t),
-		Rotation:          derivativeAt(s.beam.coeff, 1, t) / h,
-		AxialForce:        s.bar.stiffness*derivativeAt(s.bar.coeff, 1, t)/h + s.bar.offset,
-		ShearForce:        s.beam.stiffness * derivativeAt(s.beam.coeff, 3, t) / (h * h * h),
-		BendingMoment:     s.beam.stiffness*derivativeAt(s.beam.coeff, 2, t)/(h*h) + s.beam.offset,
+		AxialDisplacement: s.bar.derivative(0, t),
+		Deflection:        s.beam.derivative(0, t),
+		Rotation:          s.beam.derivative(1, t) / h,
+		AxialForce:        s.bar.stiffness*s.bar.derivative(1, t)/h + s.bar.offset,
+		ShearForce:        s.beam.stiffness * s.beam.derivative(3, t) / (h * h * h),
+		BendingMoment:     s.beam.stiffness*s.beam.derivative(2, t)/(h*h) + s.beam.offset,
 	}
 	if s.shear != 0 {
 		rot, m, v := s.shearTerms(t)
-		f.Rotation += s.shear*derivativeAt(s.beam.coeff, 3, t)/(h*h*h) + rot
+		f.Rotation += s.shear*s.beam.derivative(3, t)/(h*h*h) + rot
 		f.BendingMoment += m
 		f.ShearForce += v
 	}

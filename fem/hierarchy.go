@@ -422,7 +422,10 @@ func (r *stretchRefiner) transverseAt(x float64) float64 {
 }
 
 // keyNodes returns the index in x of every key point of m but the point
-// loads, in order.
+// loads, in order, and every node on a foundation: the foundation's
+// stiffness couples the hierarchical functions, which are orthogonal in
+// the member's stiffness alone, so a stretch on a foundation is solved
+// element by element in the factorized system.
 func keyNodes(m *Model, x []float64) ([]int, error) {
 	keys := systemKeyPoints(m)
 	idx := make([]int, len(keys))
@@ -435,5 +438,17 @@ func keyNodes(m *Model, x []float64) ([]int, error) {
 	if idx[len(idx)-1] != len(x)-1 {
 		return nil, fmt.Errorf("fem: the mesh does not end at the member end x = %s: rebuild the mesh", fmtMetres(keys[len(keys)-1]))
 	}
-	return idx, nil
+	if len(m.Foundations) == 0 {
+		return idx, nil
+	}
+	all := make([]int, 0, len(idx))
+	for j := range len(idx) - 1 {
+		all = append(all, idx[j])
+		if k, ka := m.foundationAt(0.5 * (keys[j] + keys[j+1])); k > 0 || ka > 0 {
+			for i := idx[j] + 1; i < idx[j+1]; i++ {
+				all = append(all, i)
+			}
+		}
+	}
+	return append(all, idx[len(idx)-1]), nil
 }

@@ -189,6 +189,36 @@ type Hinge struct {
 	Stiffness float64 // N·m/rad across the joint; 0 for a pure hinge
 }
 
+// Foundation is an elastic (Winkler) foundation under the stretch from
+// Start to End: a bed of independent springs that pushes back on the member
+// in proportion to its motion there, −Modulus·w across and −AxialModulus·u
+// along (a ground beam on soil, a rail on its bed, a pile in the ground).
+// A modulus per unit area of ground, such as a subgrade modulus in N/m³,
+// times the width of the member's contact gives the modulus here.
+// Foundations that overlap add up.
+type Foundation struct {
+	Start, End float64 // m
+	// Modulus is the transverse stiffness per unit length, N/m per m of
+	// deflection: N/m².
+	Modulus float64
+	// AxialModulus is the stiffness along the member per unit length, N/m
+	// per m of axial displacement (skin friction of a pile taken as
+	// elastic): N/m²; 0 leaves the axial motion free.
+	AxialModulus float64
+}
+
+// foundationAt is the total transverse and axial modulus of the
+// foundations under x, N/m², reading a foundation's end as outside it.
+func (m *Model) foundationAt(x float64) (modulus, axial float64) {
+	for _, f := range m.Foundations {
+		if x > f.Start && x < f.End {
+			modulus += f.Modulus
+			axial += f.AxialModulus
+		}
+	}
+	return modulus, axial
+}
+
 // PointLoad is a concentrated force and/or moment at one point.
 type PointLoad struct {
 	X          float64 // m
@@ -238,7 +268,9 @@ type Model struct {
 	Segments []Segment
 	Supports []Support
 	// Hinges release the bending moment at points inside the member.
-	Hinges          []Hinge
+	Hinges []Hinge
+	// Foundations carry the member elastically along stretches of it.
+	Foundations     []Foundation
 	PointLoads      []PointLoad
 	DistributedLoad []DistributedLoad
 	// Gravity is the acceleration of self-weight in member axes (x along the
@@ -288,6 +320,7 @@ func (m *Model) Clone() Model {
 	c.Segments = slices.Clone(m.Segments)
 	c.Supports = slices.Clone(m.Supports)
 	c.Hinges = slices.Clone(m.Hinges)
+	c.Foundations = slices.Clone(m.Foundations)
 	c.PointLoads, c.DistributedLoad = cloneLoads(m.PointLoads, m.DistributedLoad)
 	if m.Cases != nil {
 		c.Cases = make([]LoadCase, len(m.Cases))

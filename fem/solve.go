@@ -13,7 +13,10 @@ type Solution struct {
 	Mesh         Mesh
 	Displacement [][3]float64 // per node of Mesh.X: u (m), w (m), θ (rad)
 	Reactions    []Reaction   // one per support, in the order of Model.Supports
-	StrainEnergy float64      // energy stored in the member (springs excluded), J
+	// Foundations are what each foundation carries, in the order of
+	// Model.Foundations.
+	Foundations  []FoundationReaction
+	StrainEnergy float64 // energy stored in the member (springs excluded), J
 	Equilibrium  Equilibrium
 	// Condition bounds how much round-off can grow in the results: relative
 	// errors up to about Condition·ε (ε = 2.2e-16) are possible in
@@ -151,6 +154,7 @@ func newStructure(p *Member, mesh Mesh) (*Structure, error) {
 		st.stretches[j] = elementData{start: e.Start, length: e.End - e.Start, sectionData: sections[e.Segment]}
 	}
 	markReleases(m, st.keyX, st.stretches)
+	groundUnder(m, st.stretches)
 	// The key-point system of the bar is always linear: a quadratic bar's
 	// bubbles are orthogonal to it and solved element by element.
 	forms := []Formulation{barFormulation{LinearBar}, st.beam}
@@ -229,7 +233,11 @@ func (st *Structure) Solve(l *Loads) (*Solution, error) {
 			s.releasedStart[keys[j]] = d.startRotation
 		}
 	}
+	for j := range stretches {
+		stretches[j].setGround(keyDisp[j], keyDisp[j+1])
+	}
 	staticReactions(m, st.keyX, stretches, keyPointLoads, keyDisp, s.Reactions)
+	s.Foundations = foundationReactions(m, stretches)
 	s.fields = make([]elementField, len(mesh.Elements))
 	energy, poison := refineAll(stretchRefiner{x: mesh.X, disp: s.Displacement, fields: s.fields, order: s.barOrder}, stretches, keys)
 	depth := 0
@@ -241,7 +249,7 @@ func (st *Structure) Solve(l *Loads) (*Solution, error) {
 		return nil, err
 	}
 	s.Condition += levelRoundOff * float64(depth)
-	s.Equilibrium = equilibrium(l.Resultant(), s.Reactions)
+	s.Equilibrium = equilibrium(l.Resultant(), s.Reactions, groundResultant(s.Foundations))
 	return s, nil
 }
 
@@ -292,9 +300,10 @@ func sectionTable(m *Model, l *Loads) []sectionData {
 }
 
 // equilibrium compares the resultant of the applied loads (Loads.Resultant:
-// forces along x and y, moment about x = 0) with that of the reactions.
-func equilibrium(applied [3]float64, reactions []Reaction) Equilibrium {
-	q := Equilibrium{Applied: applied}
+// forces along x and y, moment about x = 0) with that of the reactions of
+// the supports and of the foundations (ground, in the same terms).
+func equilibrium(applied [3]float64, reactions []Reaction, ground [3]float64) Equilibrium {
+	q := Equilibrium{Applied: applied, Reactions: ground}
 	for _, r := range reactions {
 		q.Reactions[0] += r.Force[0]
 		q.Reactions[1] += r.Force[1]

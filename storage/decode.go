@@ -411,6 +411,15 @@ func (r *reader) project(top *fields) *Project {
 		h.finish()
 	}
 
+	items, paths = top.list("foundations", false, "")
+	for i, item := range items {
+		g := r.object(paths[i], item)
+		p.Model.Foundations = append(p.Model.Foundations, fem.Foundation{
+			Start: g.number("start", "m", true), End: g.number("end", "m", true),
+			Modulus: g.number("modulus", "N/m²", false), AxialModulus: g.number("axial_modulus", "N/m²", false)})
+		g.finish()
+	}
+
 	items, paths = top.list("loads", false, "")
 	for i, item := range items {
 		r.load(p, r.object(paths[i], item))

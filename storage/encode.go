@@ -28,6 +28,7 @@ type (
 		Member            fileMember      `json:"member"`
 		Supports          []fileSupport   `json:"supports"`
 		Hinges            []fileHinge     `json:"hinges,omitempty"`
+		Foundations       []fileGround    `json:"foundations,omitempty"`
 		Loads             []any           `json:"loads,omitempty"`
 		SelfWeight        *fileGravity    `json:"self_weight,omitempty"`
 		TemperatureChange number          `json:"temperature_change,omitempty"`
@@ -79,6 +80,12 @@ type (
 	fileHinge struct {
 		X         number `json:"x"`
 		Stiffness number `json:"stiffness,omitempty"`
+	}
+	fileGround struct {
+		Start        number `json:"start"`
+		End          number `json:"end"`
+		Modulus      number `json:"modulus,omitempty"`
+		AxialModulus number `json:"axial_modulus,omitempty"`
 	}
 	// fileMotion holds one value per degree of freedom.
 	fileMotion struct {
@@ -292,6 +299,11 @@ func (c *converter) toFile(p *Project) fileProject {
 	for i, h := range m.Hinges {
 		path := fmt.Sprintf("hinges[%d]", i)
 		f.Hinges = append(f.Hinges, fileHinge{X: c.num(path+".x", h.X), Stiffness: c.num(path+".stiffness", h.Stiffness)})
+	}
+	for i, g := range m.Foundations {
+		path := fmt.Sprintf("foundations[%d]", i)
+		f.Foundations = append(f.Foundations, fileGround{Start: c.num(path+".start", g.Start), End: c.num(path+".end", g.End),
+			Modulus: c.num(path+".modulus", g.Modulus), AxialModulus: c.num(path+".axial_modulus", g.AxialModulus)})
 	}
 	for i, s := range m.Supports {
 		path := fmt.Sprintf("supports[%d]", i)

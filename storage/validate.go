@@ -64,6 +64,8 @@ func modelPath(at fem.Place, loads [2][]string) string {
 		item = fmt.Sprintf("supports[%d]", at.Item.Index)
 	case fem.HingeItem:
 		item = fmt.Sprintf("hinges[%d]", at.Item.Index)
+	case fem.FoundationItem:
+		item = fmt.Sprintf("foundations[%d]", at.Item.Index)
 	case fem.PointLoadItem:
 		item = indexed(loads[PointLoad], at.Item.Index)
 	case fem.DistributedLoadItem:
@@ -116,6 +118,10 @@ func propertyKey(at fem.Place) string {
 		return "kind"
 	case fem.StiffnessProperty:
 		return "stiffness"
+	case fem.ModulusProperty:
+		return "modulus"
+	case fem.AxialModulusProperty:
+		return "axial_modulus"
 	case fem.MotionStiffnessProperty:
 		return "stiffness." + motionName(at.Dof)
 	case fem.SettlementProperty:
