@@ -548,26 +548,8 @@ func (e *Exact) At(x float64, side Side) Fields {
 		return Fields{X: x}
 	}
 	j, t := e.locate(x, side)
-	s := &e.stretches[j]
-	h := s.length
-	f := Fields{
-		X:                 s.start + t*h,
-		AxialDisplacement: s.bar.derivative(0, t),
-		Deflection:        s.beam.derivative(0, t),
-		Rotation:          s.beam.derivative(1, t) / h,
-		AxialForce:        s.bar.stiffness*s.bar.derivative(1, t)/h + s.bar.offset,
-		ShearForce:        s.beam.stiffness * s.beam.derivative(3, t) / (h * h * h),
-		BendingMoment:     s.beam.stiffness*s.beam.derivative(2, t)/(h*h) + s.beam.offset,
-	}
-	if s.shear != 0 {
-		rot, m, v := s.shearTerms(t)
-		f.Rotation += s.shear*s.beam.derivative(3, t)/(h*h*h) + rot
-		f.BendingMoment += m
-		f.ShearForce += v
-	}
-	f.AxialStress = f.AxialForce / s.area
-	f.BendingStress = f.BendingMoment * s.fibre / s.secondMoment
-	f.CombinedStress = extremeFibreStress(f.AxialStress, f.BendingStress)
+	var f Fields
+	e.stretches[j].fields(t, &f)
 	return f
 }
 

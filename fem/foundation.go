@@ -214,7 +214,7 @@ func newGroundSolution(order int, stiffness, h, modulus, l0, l1 float64) stretch
 // derivative is the d-th derivative in t of the k-th basis function at t.
 func (g *groundBasis) derivative(k, d int, t float64) float64 {
 	if g.scale > groundSeriesLimit {
-		return g.decaying(k, d, t)
+		return g.decaying(k, d, t)[d]
 	}
 	// gₖ⁽ᵈ⁾ = gₖ₋d, each turn past g₀ bringing a factor c.
 	j, f := k-d, 1.0
@@ -245,34 +245,33 @@ func (g *groundBasis) series(j int, t float64) float64 {
 	return sum
 }
 
-// decaying is the d-th derivative of the k-th decaying function at t: for
-// the beam Re or Im of z^d·e^(z·s) with z = λ(−1 + i), s = t for the first
-// two and z = λ(1 + i), s = t − 1 for the last two; for the bar (∓μ)^d·
-// e^(∓μ·s) likewise.
-func (g *groundBasis) decaying(k, d int, t float64) float64 {
+// decaying is the derivatives of orders 0 to upto (at most 3) of the k-th
+// decaying function at t: for the beam Re or Im of z^d·e^(z·s) with z =
+// λ(−1 + i), s = t for the first two and z = λ(1 + i), s = t − 1 for the
+// last two; for the bar (∓μ)^d·e^(∓μ·s) likewise.
+func (g *groundBasis) decaying(k, upto int, t float64) [4]float64 {
+	var out [4]float64
 	l := g.scale
 	if g.order == exactBar.order {
 		v, z := math.Exp(l*(t-1)), l
 		if k == 0 {
 			v, z = math.Exp(-l*t), -l
 		}
-		for range d {
+		for d := 0; d <= upto; d++ {
+			out[d] = v
 			v *= z
 		}
-		return v
+		return out
 	}
-	z, s := complex(-l, l), t
-	if k >= 2 {
-		z, s = complex(l, l), t-1
-	}
-	v := cmplx.Exp(z * complex(s, 0))
-	for range d {
+	z, v := g.wave(k/2, t)
+	for d := 0; d <= upto; d++ {
+		out[d] = real(v)
+		if k%2 == 1 {
+			out[d] = imag(v)
+		}
 		v *= z
 	}
-	if k%2 == 0 {
-		return real(v)
-	}
-	return imag(v)
+	return out
 }
 
 // Foundations returns what each foundation carries in the exact solution,
@@ -325,4 +324,69 @@ func (e *Exact) Foundations(m *Model) []FoundationReaction {
 		}
 	}
 	return out
+}
+
+// wave is the beam's pair of decaying functions at t as one complex
+// exponential v = e^(z·s), with z = λ(−1 + i) and s = t for the pair
+// decaying from the start, z = λ(1 + i) and s = t − 1 for the pair decaying
+// from the end: the functions are Re v and Im v, their d-th derivatives
+// those of z^d·v.
+func (g *groundBasis) wave(pair int, t float64) (z, v complex128) {
+	l := g.scale
+	z, s := complex(-l, l), t
+	if pair == 1 {
+		z, s = complex(l, l), t-1
+	}
+	return z, cmplx.Exp(z * complex(s, 0))
+}
+
+// derivatives writes the solution's derivatives in t of orders 0 to upto
+// (at most 3) at t to out: what derivative gives, with each basis
+// function's exponential or series summed once for all orders.
+func (s *stretchSolution) derivatives(t float64, upto int, out *[4]float64) {
+	if s.polynomial() {
+		for d := 0; d <= upto; d++ {
+			out[d] = derivativeAt(s.coeff, d, t)
+		}
+		return
+	}
+	for d := 0; d <= upto; d++ {
+		out[d] = s.particular(d, t)
+	}
+	g := &s.ground
+	if g.scale > groundSeriesLimit && s.order == exactBeam.order {
+		// The beam's functions come in pairs, Re and Im of one exponential.
+		for pair := range 2 {
+			z, v := g.wave(pair, t)
+			cr, ci := s.coeff[2*pair], s.coeff[2*pair+1]
+			for d := 0; d <= upto; d++ {
+				out[d] += cr*real(v) + ci*imag(v)
+				v *= z
+			}
+		}
+		return
+	}
+	if g.scale > groundSeriesLimit {
+		for k := range s.order {
+			v := g.decaying(k, upto, t)
+			for d := 0; d <= upto; d++ {
+				out[d] += s.coeff[k] * v[d]
+			}
+		}
+		return
+	}
+	var series [4]float64
+	for j := range s.order {
+		series[j] = g.series(j, t)
+	}
+	for k := range s.order {
+		for d := 0; d <= upto; d++ {
+			j, f := k-d, 1.0
+			for j < 0 {
+				j += s.order
+				f *= g.cycle
+			}
+			out[d] += s.coeff[k] * f * series[j]
+		}
+	}
 }

@@ -294,3 +294,75 @@ func TestFoundationMechanisms(t *testing.T) {
 		t.Errorf("a part off the foundation beyond a hinge: got %v", err)
 	}
 }
+
+// The exact solution on a foundation is read in closed form by the walk:
+// its extremes are those of the long beam under a point load (see
+// TestLongBeamOnFoundationPointLoad): the largest moment P/(4β) under the
+// load, the largest hogging moment P/(4β)·e^(−π/2) a quarter wave π/(2β)
+// either side, the largest deflection P·β/(2k) under the load (Hetényi,
+// 1946, from memory); and the comparison with the finite element solution
+// finds the largest errors a dense sampling of both finds.
+func TestFoundationWalk(t *testing.T) {
+	ei := testE * testI
+	const k, P = 6.4e6, 80e3
+	beta := math.Sqrt(math.Sqrt(k / (4 * ei)))
+	L := 42 / beta
+	m := groundModel(L, k)
+	m.PointLoads = []PointLoad{{X: L / 2, Transverse: -P}}
+	m.Mesh = MeshSettings{Elements: 300}
+	s := mustSolve(t, m)
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var mLo, mHi, wLo Point
+	mLo.Value, mHi.Value, wLo.Value = math.Inf(1), math.Inf(-1), math.Inf(1)
+	for _, v := range e.Intervals() {
+		if _, ok := v.Polynomial(QDeflection); ok {
+			t.Fatal("an exact interval on a foundation claims to be a polynomial")
+		}
+		lo, hi := v.Range(QBendingMoment)
+		if lo.Value < mLo.Value {
+			mLo = lo
+		}
+		if hi.Value > mHi.Value {
+			mHi = hi
+		}
+		if lo, _ := v.Range(QDeflection); lo.Value < wLo.Value {
+			wLo = lo
+		}
+	}
+	peak, hog, quarter := P/(4*beta), P/(4*beta)*math.Exp(-math.Pi/2), math.Pi/(2*beta)
+	if relErr(mHi.Value, peak) > 1e-9 || math.Abs(mHi.X-L/2) > 1e-9*L {
+		t.Errorf("largest exact moment %.10g at x = %.8g, want %.10g at %.8g", mHi.Value, mHi.X, peak, L/2)
+	}
+	if relErr(mLo.Value, -hog) > 1e-9 || math.Abs(math.Abs(mLo.X-L/2)-quarter) > 1e-6*L {
+		t.Errorf("largest hogging moment %.10g at x = %.8g, want %.10g at %.8g ± %.8g", mLo.Value, mLo.X, -hog, L/2, quarter)
+	}
+	if relErr(wLo.Value, -P*beta/(2*k)) > 1e-9 {
+		t.Errorf("largest deflection %.10g, want %.10g", wLo.Value, -P*beta/(2*k))
+	}
+	// Dense sampling of both solutions, 40 points an element.
+	var du, dw float64
+	for _, el := range s.Mesh.Elements {
+		for i := 0; i <= 40; i++ {
+			x := el.Start + (el.End-el.Start)*float64(i)/40
+			a, b := s.At(x, Right), e.At(x, Right)
+			du, dw = max(du, math.Abs(a.AxialDisplacement-b.AxialDisplacement)), max(dw, math.Abs(a.Deflection-b.Deflection))
+		}
+	}
+	norms := Compare(s, e)
+	if norms.MaxDeflection < dw*(1-1e-9) || norms.MaxDeflection > dw*1.01 {
+		t.Errorf("largest deflection error %.6g, dense sampling finds %.6g", norms.MaxDeflection, dw)
+	}
+	if !(norms.RelativeEnergy > 0 && norms.RelativeEnergy < 0.2 && norms.RelativeL2 > 0 && norms.RelativeL2 < 0.05) {
+		t.Errorf("error norms on 300 elements (β·h = %.2g): %+v", beta*L/300, norms)
+	}
+	// Finer, the energy error falls as h² (cubic elements: the curvature's
+	// error is of order h^(p−1), p = 3; Strang & Fix, ch. 1, from memory).
+	m.Mesh.Elements = 1200
+	finer := Compare(mustSolve(t, m), e)
+	if r := norms.RelativeEnergy / finer.RelativeEnergy; r < 14 || r > 18 {
+		t.Errorf("energy error %.3g on 300 elements, %.3g on 1,200: ratio %.3g, want about 16", norms.RelativeEnergy, finer.RelativeEnergy, r)
+	}
+}

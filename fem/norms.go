@@ -98,6 +98,10 @@ func NewComparison(s *Solution, e *Exact) *Comparison {
 
 // add measures the exact solution on stretch st, whose fields are v.
 func (m *exactMeasures) add(st *exactStretch, v *Interval) {
+	if v.closed.stretch != nil {
+		m.addClosed(st, v)
+		return
+	}
 	lo, hi := v.Range(QCombinedStress)
 	m.stress = math.Max(m.stress, math.Max(math.Abs(lo.Value), math.Abs(hi.Value)))
 	// The sizes Σ|term| of the terms that make N (the thermal term included)
@@ -136,6 +140,10 @@ func (c *Comparison) Visit(v *ElementView) {
 		return
 	}
 	fe, ex := &v.FE, &v.Exact
+	if ex.closed.stretch != nil {
+		c.visitClosed(v)
+		return
+	}
 	var du, dw, dn, dm Polynomial
 	for k := range du {
 		du[k] = fe.poly[QAxialDisplacement][k] - ex.poly[QAxialDisplacement][k]

@@ -36,6 +36,9 @@ type Interval struct {
 	// exact solution.
 	solution *Solution
 	element  int
+	// closed reads the exact solution in closed form where it is no
+	// polynomial (closedform.go).
+	closed closedInterval
 	// ranges are the results of Range, taken once per interval: known
 	// holds a bit per quantity whose range is there.
 	ranges [quantityCount][2]extremum
@@ -49,7 +52,7 @@ const polynomialQuantities = int(QCombinedStress)
 // Polynomial is quantity q on the interval as a polynomial in ξ, in SI
 // units; false for the combined stress, which is not one.
 func (v *Interval) Polynomial(q Quantity) (Polynomial, bool) {
-	if q < 0 || int(q) >= polynomialQuantities {
+	if q < 0 || int(q) >= polynomialQuantities || v.closed.stretch != nil {
 		return Polynomial{}, false
 	}
 	return v.poly[q], true
@@ -86,8 +89,12 @@ func (v *Interval) At(xi float64, f *Fields) {
 	}
 }
 
-// evaluate writes the polynomials' values at ξ to f.
+// evaluate writes the polynomials' values at ξ to f, or the closed form's.
 func (v *Interval) evaluate(xi float64, f *Fields) {
+	if v.closed.stretch != nil {
+		v.closedAt(xi, f)
+		return
+	}
 	at := func(q Quantity) float64 { return v.poly[q].at(v.degree[q], xi) }
 	f.X = v.X(xi)
 	f.AxialDisplacement, f.Deflection, f.Rotation = at(QAxialDisplacement), at(QDeflection), at(QRotation)
@@ -109,6 +116,8 @@ func (v *Interval) Range(q Quantity) (lo, hi Point) {
 	r := &v.ranges[q]
 	if v.known&(1<<q) == 0 {
 		switch {
+		case v.closed.stretch != nil:
+			r[0], r[1] = v.closedRange(q)
 		case q == QCombinedStress:
 			r[0], r[1] = v.combinedRange()
 		case !turnsInside(&v.poly[q], v.degree[q]):
@@ -128,6 +137,11 @@ func (v *Interval) Range(q Quantity) (lo, hi Point) {
 // endsFromPolynomials sets the ends to the polynomials' values at ξ = 0 (their
 // constant terms) and ξ = 1 (the sums of their coefficients).
 func (v *Interval) endsFromPolynomials() {
+	if v.closed.stretch != nil {
+		v.closedAt(0, &v.ends[0])
+		v.closedAt(1, &v.ends[1])
+		return
+	}
 	var at0, at1 [polynomialQuantities]float64
 	for q := range at0 {
 		p := &v.poly[q]
@@ -383,6 +397,11 @@ var exactDegrees = [polynomialQuantities]int{
 // shifted to t0 (repeated synthetic division, Knuth, TAOCP vol. 2, 4.6.4,
 // from memory) and scaled to the interval, the rest their derivatives.
 func (s *exactStretch) interval(t0, scale, start, h float64, v *Interval) {
+	if !s.polynomial() {
+		v.setClosed(s, t0, scale, start, h)
+		return
+	}
+	v.closed.stretch = nil
 	var u, w Polynomial
 	copy(u[:], s.bar.coeff)
 	copy(w[:], s.beam.coeff)

@@ -323,14 +323,15 @@ func (p *Probe) takeStress(i int, v *fem.Interval) {
 
 // takeDeflection takes the largest |w − chord| on v for part k.
 func (p *Probe) takeDeflection(k int, v *fem.Interval, c *chordLine) {
-	w, _ := v.Polynomial(fem.QDeflection)
 	a, b := c.at(v.X(0)), c.at(v.X(1))
-	w[0] -= a
-	w[1] -= b - a
-	if w.MaxAbsBound() <= p.deflection[k].value {
-		return // it cannot beat the peak so far
+	if w, ok := v.Polynomial(fem.QDeflection); ok {
+		w[0] -= a
+		w[1] -= b - a
+		if w.MaxAbsBound() <= p.deflection[k].value {
+			return // it cannot beat the peak so far
+		}
 	}
-	lo, hi := v.RangeOf(&w)
+	lo, hi := v.RangeLess(fem.QDeflection, a, b)
 	best := hi
 	if math.Abs(lo.Value) > math.Abs(hi.Value) {
 		best = lo
