@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"io"
 	"slices"
+	"stave/canvas"
 	"strings"
 	"text/tabwriter"
 
@@ -282,4 +283,72 @@ func governingWords(g GoverningJSON) string {
 		return g.Combination + " (" + a + ")"
 	}
 	return g.Combination
+}
+
+// envelopeInput is the envelope the drawing shows for a, or nil when a
+// shows one solution.
+func envelopeInput(a *analysis.Analysis) *canvas.Envelope {
+	c := a.Cases
+	if c == nil || c.Show.Kind != analysis.ShowEnvelope || c.Envelope == nil {
+		return nil
+	}
+	names := make([]string, len(c.Combinations))
+	for k, cb := range c.Combinations {
+		names[k] = cb.Name
+	}
+	return &canvas.Envelope{Solutions: c.Solutions, Result: c.Envelope, Names: names}
+}
+
+// sheetCaseLines are the calculation sheet's lines on the cases of src's
+// model: what is shown, the cases, the combinations with their factors,
+// the envelope's governing bending moments, the
+// transverse reactions' envelope, with the caution on combined results;
+// none for a model without cases or an analysis not finished.
+func sheetCaseLines(src Source) []string {
+	a := src.Analysis
+	if a == nil || a.Cases == nil || !a.Complete {
+		return nil
+	}
+	r, err := CasesResults(a)
+	if err != nil {
+		return []string{"the cases could not be reported: " + err.Error()}
+	}
+	u := src.Units
+	var names, combos, reactions []string
+	for _, c := range r.Cases {
+		n := c.Name
+		if c.BySpan {
+			n += " (placed by span)"
+		}
+		names = append(names, n)
+	}
+	for _, c := range r.Combinations {
+		kind := c.Kind
+		if c.Label != "" {
+			kind = c.Label
+		}
+		combos = append(combos, fmt.Sprintf("%s (%s) = %s", c.Name, kind, FactorsText(c)))
+	}
+	lines := []string{fmt.Sprintf("Shown: %s; the results above are those of %s. Load cases: %s. Combinations: %s. %s",
+		r.Shown, r.SummaryOf, strings.Join(names, "; "), strings.Join(combos, "; "), CombinedCaution)}
+	for _, q := range r.Envelope.Quantities {
+		switch q.Quantity {
+		case fem.QBendingMoment:
+			k := q.Quantity.Info().Unit
+			lines = append(lines, fmt.Sprintf("Envelope of %s: largest %s at %s, %s; smallest %s at %s, %s.", q.Quantity.Info().Name,
+				u.Format(k, q.Max.Value), u.Format(units.Position, q.Max.X), governingWords(q.Max),
+				u.Format(k, q.Min.Value), u.Format(units.Position, q.Min.X), governingWords(q.Min)))
+		}
+	}
+	for _, re := range r.Envelope.Reactions {
+		hi, lo := re.Max["transverse"], re.Min["transverse"]
+		if hi.Value != 0 || lo.Value != 0 {
+			reactions = append(reactions, fmt.Sprintf("%d: %s (%s) to %s (%s)", re.Support,
+				u.Format(units.Force, lo.Value), governingWords(lo), u.Format(units.Force, hi.Value), governingWords(hi)))
+		}
+	}
+	if len(reactions) > 0 {
+		lines = append(lines, "Transverse reactions, support "+strings.Join(reactions, "; ")+".")
+	}
+	return lines
 }
