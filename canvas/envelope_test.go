@@ -19,7 +19,7 @@ func TestEnvelopeDrawsBothCurvesAndNamesTheCombination(t *testing.T) {
 	m := &fem.Model{
 		Segments: []fem.Segment{{Start: 0, End: 8, Section: fem.Section{Area: 4e-3, SecondMoment: 8e-6, FibreDistance: 0.1}, Material: fem.Material{Elastic: 2e11}}},
 		Supports: []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}, {X: 8, Kind: fem.Roller}},
-		Cases: []fem.LoadCase{{Name: "both spans", DistributedLoad: []fem.DistributedLoad{w}}, {Name: "first span", DistributedLoad: []fem.DistributedLoad{first}}},
+		Cases:    []fem.LoadCase{{Name: "both spans", DistributedLoad: []fem.DistributedLoad{w}}, {Name: "first span", DistributedLoad: []fem.DistributedLoad{first}}},
 		Combinations: []fem.Combination{
 			{Name: "both", Factors: []fem.CaseFactor{{Case: 0, Factor: 1}}},
 			{Name: "first", Factors: []fem.CaseFactor{{Case: 1, Factor: 1}}},
