@@ -196,7 +196,7 @@ func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme, env *envelope
 		main = ex
 	}
 	if env != nil {
-		b.envelopeExtremes(d.quantity, d, toY)
+		b.envelopeExtremes(d.quantity, d, env, toY)
 	} else {
 		b.extremes(main, d, toY)
 	}

@@ -13,8 +13,10 @@ import (
 // solutions' envelope with the gap between them when the exact band is on.
 type Envelope struct {
 	Solutions *fem.CombinationSolutions
-	Result    *fem.Envelope
-	Names     []string // the combinations', as Result's Combination indices count them
+	// Result is the envelope in closed form, whose extremes are labelled
+	// with their combinations; nil labels the sampled extremes alone.
+	Result *fem.Envelope
+	Names  []string // the combinations', as Result's Combination indices count them
 }
 
 // envelopeStrip is the envelope of one strip's quantity as curves.
@@ -109,9 +111,18 @@ func (b *builder) envelopeLower(es *envelopeStrip, colour color.NRGBA, toY func(
 }
 
 // envelopeExtremes labels the envelope's largest and smallest value of
-// quantity q with the combination that governs each.
-func (b *builder) envelopeExtremes(q fem.Quantity, d diagram, toY func(float64) float32) {
+// quantity q with the combination that governs each; without the closed
+// form, the largest and smallest sample of es.
+func (b *builder) envelopeExtremes(q fem.Quantity, d diagram, es *envelopeStrip, toY func(float64) float32) {
 	env := b.in.Envelope
+	if env.Result == nil {
+		for _, e := range []extreme{es.hi.hi, es.lo.lo} {
+			if e.value != 0 && es.hi.n > 0 {
+				b.peakLabel(e.x, e.value, fmt.Sprintf("%s at %s", b.format(q.Info().Unit, e.value), b.format(units.Position, e.x)), d, toY)
+			}
+		}
+		return
+	}
 	for _, qe := range env.Result.Quantities {
 		if qe.Quantity != q {
 			continue

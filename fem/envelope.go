@@ -303,6 +303,8 @@ type envelopeWalk struct {
 	sharePoly [][envelopeValues]Polynomial
 	parts     []Polynomial
 	cuts      []float64
+	// patterned says which combinations switch span shares.
+	patterned []bool
 }
 
 // envelopePoint is an extreme found so far: where (element, ξ and x), its
@@ -324,7 +326,21 @@ func newEnvelopeWalk(cs *CombinationSolutions) *envelopeWalk {
 	for i := range w.lo {
 		w.lo[i].value, w.hi[i].value = math.Inf(1), math.Inf(-1)
 	}
+	for _, row := range cs.Loads.Factors {
+		w.patterned = append(w.patterned, slices.ContainsFunc(row, func(f float64) bool { return f != 0 }))
+	}
 	return w
+}
+
+// endValue is value i at an end f of an interval.
+func endValue(f *Fields, i int) float64 {
+	switch i {
+	case bottomFibre:
+		return f.AxialStress + f.BendingStress
+	case topFibre:
+		return f.AxialStress - f.BendingStress
+	}
+	return Quantity(i).Of(f)
 }
 
 // polynomialOf is value i of interval v as a polynomial in ξ.
@@ -352,9 +368,19 @@ func (w *envelopeWalk) visit(e int) {
 	x0, h := w.fixed[0].Start, w.fixed[0].Length
 	for c := range w.fixed {
 		factors := w.cs.Loads.Factors[c]
+		f := &w.fixed[c]
 		for i := range envelopeValues {
 			d := w.degree[i]
-			a := polynomialOf(&w.fixed[c], i)
+			if d <= 1 && !w.patterned[c] {
+				// Linear: the element's own end values, start first.
+				v0, v1 := endValue(&f.ends[0], i), endValue(&f.ends[1], i)
+				lo, hi := extremum{0, v0}, extremum{0, v0}
+				lo.least(1, v1)
+				hi.most(1, v1)
+				w.take(&w.lo[i], &w.hi[i], e, x0, h, c, lo, hi)
+				continue
+			}
+			a := polynomialOf(f, i)
 			w.parts = w.parts[:0]
 			for j, f := range factors {
 				if f != 0 {
@@ -362,16 +388,10 @@ func (w *envelopeWalk) visit(e int) {
 				}
 			}
 			var lo, hi extremum
-			switch {
-			case len(w.parts) > 0:
+			if len(w.parts) > 0 {
 				lo, hi = w.patternRange(&a, d)
-			case d <= 1:
-				// Linear: the ends, start first.
-				lo, hi = extremum{0, a[0]}, extremum{0, a[0]}
-				lo.least(1, a[0]+a[1])
-				hi.most(1, a[0]+a[1])
-			default:
-				lo, hi = rangeOn(&a, d, a[0], a.at(d, 1))
+			} else {
+				lo, hi = rangeOn(&a, d, endValue(&f.ends[0], i), endValue(&f.ends[1], i))
 			}
 			w.take(&w.lo[i], &w.hi[i], e, x0, h, c, lo, hi)
 		}

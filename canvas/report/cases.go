@@ -114,6 +114,9 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 	if c == nil {
 		return nil, nil
 	}
+	if c.Envelope == nil {
+		return nil, fmt.Errorf("the combinations were not solved: %v", a.ExactErr)
+	}
 	m := &a.Model
 	out := &CasesJSON{Shown: c.Show.Title(m), SummaryOf: c.Show.Title(m)}
 	if c.Show.Kind == analysis.ShowEnvelope {
@@ -289,7 +292,7 @@ func governingWords(g GoverningJSON) string {
 // shows one solution.
 func envelopeInput(a *analysis.Analysis) *canvas.Envelope {
 	c := a.Cases
-	if c == nil || c.Show.Kind != analysis.ShowEnvelope || c.Envelope == nil {
+	if c == nil || c.Show.Kind != analysis.ShowEnvelope {
 		return nil
 	}
 	names := make([]string, len(c.Combinations))

@@ -42,7 +42,9 @@ type Cases struct {
 	// Solutions are the combinations' load sets solved, the exact ones
 	// after Finish.
 	Solutions *fem.CombinationSolutions
-	// Envelope is every quantity's envelope over the combinations.
+	// Envelope is every quantity's envelope over the combinations, in
+	// closed form with the governing combinations, after Finish (the
+	// drawing samples the envelope from Solutions before).
 	Envelope *fem.Envelope
 	// Summaries are each combination's summary (every span loaded), and
 	// Governing the combination each of the analysis's Checks was taken
@@ -89,8 +91,8 @@ func (s Show) Title(m *fem.Model) string {
 }
 
 // solveCases is the first stage for a model with cases: every
-// combination solved, the envelope, and the shown case or combination as
-// a.Solution (the first combination for the envelope).
+// combination solved, and the shown case or combination as a.Solution
+// (the first combination for the envelope).
 func solveCases(a *Analysis, r Request) {
 	p, err := fem.Prepare(&a.Model)
 	if err != nil {
@@ -105,35 +107,69 @@ func solveCases(a *Analysis, r Request) {
 		}
 	}
 	c := &Cases{Show: r.Show, Combinations: a.Model.EnvelopeCombinations(), member: p, mesh: mesh}
-	if c.Solutions, a.Err = p.SolveCombinations(mesh); a.Err != nil {
-		return
-	}
-	c.Envelope = c.Solutions.Envelope()
 	a.Cases = c
+	// One case or one combination needs its own load sets alone; the
+	// others follow in Finish.
 	switch s := r.Show; {
 	case s.Kind == ShowCase && s.Index >= 0 && s.Index < a.Model.LoadSetCount():
-		var st *fem.Structure
-		if st, a.Err = p.Structure(mesh); a.Err == nil {
-			a.Solution, a.Err = st.Solve(&p.LoadSets()[s.Index])
-		}
+		a.Solution, a.Err = solveSets(p, mesh, []fem.Loads{p.LoadSets()[s.Index]}, []float64{1})
 	case s.Kind == ShowCombination && s.Index >= 0 && s.Index < len(c.Combinations):
-		a.Solution, a.Err = c.Solutions.Solution(s.Index)
+		var cl *fem.CombinationLoads
+		if cl, a.Err = p.CombinationLoads(); a.Err != nil {
+			return
+		}
+		sets, factors := []fem.Loads{cl.Fixed[s.Index]}, []float64{1}
+		for j, f := range cl.Factors[s.Index] {
+			if f != 0 {
+				sets, factors = append(sets, cl.ShareLoads[j]), append(factors, f)
+			}
+		}
+		a.Solution, a.Err = solveSets(p, mesh, sets, factors)
 	default:
 		c.Show = Show{Kind: ShowEnvelope}
-		a.Solution, a.Err = c.Solutions.Solution(0)
+		if c.Solutions, a.Err = p.SolveCombinations(mesh); a.Err == nil {
+			a.Solution, a.Err = c.Solutions.Solution(0)
+		}
 	}
+}
+
+// solveSets is Σ factors[i]·sets[i] solved on p's structure on mesh.
+func solveSets(p *fem.Member, mesh fem.Mesh, sets []fem.Loads, factors []float64) (*fem.Solution, error) {
+	st, err := p.Structure(mesh)
+	if err != nil {
+		return nil, err
+	}
+	sols := make([]*fem.Solution, len(sets))
+	for i := range sets {
+		if sols[i], err = st.Solve(&sets[i]); err != nil {
+			return nil, err
+		}
+	}
+	if len(sols) == 1 {
+		return sols[0], nil
+	}
+	return fem.CombineSolutions(sols, factors)
 }
 
 // clone is a copy of c that Finish may fill in while the window shows c.
 func (c *Cases) clone() *Cases {
 	d := *c
-	sols := *c.Solutions
-	d.Solutions = &sols
+	if c.Solutions != nil {
+		sols := *c.Solutions
+		d.Solutions = &sols
+	}
 	return &d
 }
 
-// exact is the exact solution of what c shows, with every combination's.
+// exact is the exact solution of what c shows, with every combination's
+// (solved here when the first stage did not).
 func (c *Cases) exact() (*fem.Exact, error) {
+	if c.Solutions == nil {
+		var err error
+		if c.Solutions, err = c.member.SolveCombinations(c.mesh); err != nil {
+			return nil, err
+		}
+	}
 	if err := c.Solutions.SolveExact(c.member); err != nil {
 		return nil, err
 	}
@@ -147,12 +183,16 @@ func (c *Cases) exact() (*fem.Exact, error) {
 	return c.Solutions.Exact(max(c.Show.Index, 0))
 }
 
-// finish summarises and checks every combination, and for the envelope
+// finish finds the envelope, summarises and checks every combination, and for the envelope
 // keeps each check from the combination where it is worst: design checks
 // of stress and buckling from the strength combinations, of deflection
 // from the serviceability ones (from all when there are none of that
 // kind), checks of the answer from all.
 func (c *Cases) finish(a *Analysis, opts check.Options) {
+	if c.Solutions == nil {
+		return // the exact stage could not solve them, and says why
+	}
+	c.Envelope = c.Solutions.Envelope()
 	per := make([][]check.Result, len(c.Combinations))
 	for k := range c.Combinations {
 		s, err := c.Solutions.Solution(k)
