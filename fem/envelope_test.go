@@ -30,14 +30,7 @@ func solveCombinations(t *testing.T, m *Model) (*Member, *CombinationSolutions) 
 func TestCombinedLoadsAreCombinedResults(t *testing.T) {
 	rnd := rand.New(rand.NewPCG(41, 42))
 	for trial := range 15 {
-		base := randomKeyPointModel(rnd)
-		m := base.Clone()
-		m.PointLoads, m.DistributedLoad, m.TemperatureChange = nil, nil, 0
-		half := len(base.PointLoads) / 2
-		m.Cases = []LoadCase{
-			{Name: "dead", PointLoads: base.PointLoads[:half], SelfWeight: true, Settlements: true},
-			{Name: "imposed", PointLoads: base.PointLoads[half:], DistributedLoad: base.DistributedLoad, TemperatureChange: base.TemperatureChange},
-		}
+		m := randomTwoCases(rnd)
 		if len(m.Cases[0].PointLoads) == 0 && m.Gravity == [2]float64{} {
 			m.Cases[0].PointLoads = []PointLoad{{X: m.Length() / 3, Transverse: -1e3}}
 		}
@@ -45,16 +38,7 @@ func TestCombinedLoadsAreCombinedResults(t *testing.T) {
 		m.Combinations = []Combination{{Name: "c", Factors: []CaseFactor{{0, factors[0]}, {1, factors[1]}}}}
 		m.Mesh = MeshSettings{Elements: 40}
 		p, cs := solveCombinations(t, &m)
-		sols, err := p.SolveLoadSets(p.Mesh())
-		if err != nil {
-			t.Fatal(err)
-		}
-		exacts, err := p.ExactLoadSets()
-		if err != nil {
-			t.Fatal(err)
-		}
-		fe, _ := CombineSolutions(sols, factors)
-		ex, _ := CombineExact(exacts, factors)
+		fe, ex := combineCases(t, p, factors)
 		got, gotEx := cs.Fixed[0], cs.FixedExact[0]
 		scale := 0.0
 		for _, d := range fe.Displacement {
@@ -87,9 +71,7 @@ func TestCombinedLoadsAreCombinedResults(t *testing.T) {
 func TestEnvelopeIsWorstCombination(t *testing.T) {
 	rnd := rand.New(rand.NewPCG(7, 8))
 	for trial := range 10 {
-		base := randomKeyPointModel(rnd)
-		m := base.Clone()
-		m.PointLoads, m.DistributedLoad, m.TemperatureChange = nil, nil, 0
+		m := randomTwoCases(rnd)
 		m.Cases = []LoadCase{
 			{Name: "a", PointLoads: []PointLoad{{X: 0.3 * m.Length(), Transverse: -8e3, Axial: 2e3}}, SelfWeight: m.Gravity != [2]float64{}},
 			{Name: "b", PointLoads: []PointLoad{{X: 0.7 * m.Length(), Transverse: 5e3, Moment: 1e3}}},
