@@ -124,6 +124,9 @@ func (r *readout) show(w *Window) {
 	}
 	x := d.hoverX
 	r.at.SetText("At x = " + w.position(x) + " (under the mouse)")
+	if r.showEnvelope(w, x) {
+		return
+	}
 	fe := a.Solution.At(x, fem.Right)
 	var ex fem.Fields
 	if a.Exact != nil {

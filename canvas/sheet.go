@@ -25,6 +25,9 @@ type SheetInput struct {
 	Notes SheetNotes
 	// Checks are the failed or warned checks, one sentence each.
 	Checks []string
+	// Cases are the load cases, combinations with their factors and the
+	// envelope's governing values of a model with cases, one line each.
+	Cases []string
 }
 
 // A4 portrait in points; the sheet is laid out as a scene of this size.
@@ -117,14 +120,8 @@ func buildSheet(in SheetInput) *Scene {
 			sh.row([]string{ln}, []float32{sheetEdge}, sheetText, problemColour, true)
 		}
 	}
-	if len(in.Checks) > 0 {
-		sh.heading("Failed or warned checks")
-		for _, c := range in.Checks {
-			for _, ln := range wrap("• "+c, sheetText, false, right-sheetEdge) {
-				sh.row([]string{ln}, []float32{sheetEdge}, sheetText, problemColour, false)
-			}
-		}
-	}
+	sh.list("Load cases, combinations and envelope", in.Cases, inkColour)
+	sh.list("Failed or warned checks", in.Checks, problemColour)
 	// The caution sits at the foot of the page whatever the content above.
 	foot := float32(a4Height - sheetEdge - 2*TextHeight(sheetText))
 	b.line(inkColour, 0.75, Point{sheetEdge, foot - 4}, Point{right, foot - 4})
@@ -161,13 +158,29 @@ func (sh *sheet) reserve(in SheetInput) float32 {
 	} else {
 		h += 3*line + 25
 	}
-	if len(in.Checks) > 0 {
-		h += 25
-		for _, c := range in.Checks {
-			h += line * float32(len(wrap("• "+c, sheetText, false, a4Width-2*sheetEdge)))
+	for _, list := range [][]string{in.Checks, in.Cases} {
+		if len(list) > 0 {
+			h += 25
+			for _, c := range list {
+				h += line * float32(len(wrap("• "+c, sheetText, false, a4Width-2*sheetEdge)))
+			}
 		}
 	}
 	return h
+}
+
+// list writes a heading and its lines as bullets in colour c; nothing
+// without lines.
+func (sh *sheet) list(title string, lines []string, c color.NRGBA) {
+	if len(lines) == 0 {
+		return
+	}
+	sh.heading(title)
+	for _, l := range lines {
+		for _, ln := range wrap("• "+l, sheetText, false, a4Width-2*sheetEdge) {
+			sh.row([]string{ln}, []float32{sheetEdge}, sheetText, c, false)
+		}
+	}
 }
 
 // sheetRows caps each input table so the page holds.

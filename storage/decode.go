@@ -422,7 +422,7 @@ func (r *reader) project(top *fields) *Project {
 
 	items, paths = top.list("loads", false, "")
 	for i, item := range items {
-		r.load(p, r.object(paths[i], item))
+		r.load(&p.Model.PointLoads, &p.Model.DistributedLoad, &p.LoadOrder, r.object(paths[i], item))
 	}
 
 	if weight := top.object("self_weight", false, ""); weight.n != nil {
@@ -430,6 +430,7 @@ func (r *reader) project(top *fields) *Project {
 		weight.finish()
 	}
 	p.Model.TemperatureChange = top.number("temperature_change", "K", false)
+	r.cases(p, top)
 
 	mesh := top.object("mesh", true, `"mesh": {"elements": ...}`)
 	p.Model.Mesh = fem.MeshSettings{
@@ -525,20 +526,21 @@ func (r *reader) support(f *fields) fem.Support {
 	return s
 }
 
-func (r *reader) load(p *Project, f *fields) {
+// load reads one load into points or lines, noting its kind in order.
+func (r *reader) load(points *[]fem.PointLoad, lines *[]fem.DistributedLoad, order *[]LoadKind, f *fields) {
 	kind := f.text("kind", true, `"kind": "point" or "distributed"`)
 	switch kind {
 	case pointKindName:
-		p.LoadOrder = append(p.LoadOrder, PointLoad)
-		p.Model.PointLoads = append(p.Model.PointLoads, fem.PointLoad{
+		*order = append(*order, PointLoad)
+		*points = append(*points, fem.PointLoad{
 			X:          f.number("x", "m", true),
 			Axial:      f.number("axial", "N", false),
 			Transverse: f.number("transverse", "N", false),
 			Moment:     f.number("moment", "N·m", false),
 		})
 	case distributedKindName:
-		p.LoadOrder = append(p.LoadOrder, DistributedLoad)
-		p.Model.DistributedLoad = append(p.Model.DistributedLoad, r.distributed(f))
+		*order = append(*order, DistributedLoad)
+		*lines = append(*lines, r.distributed(f))
 	default:
 		if f.holds("kind", stringNode) {
 			r.add(join(f.path, "kind"), "%q is not a load kind; use \"point\" or \"distributed\"", cut(kind))

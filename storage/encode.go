@@ -21,19 +21,21 @@ const Version = 2
 // order and files diff well. Optional values are left out when zero.
 type (
 	fileProject struct {
-		Format            string          `json:"format"`
-		Version           int             `json:"version"`
-		Units             unitDeclaration `json:"units"`
-		Notes             fileNotes       `json:"notes,omitzero"`
-		Member            fileMember      `json:"member"`
-		Supports          []fileSupport   `json:"supports"`
-		Hinges            []fileHinge     `json:"hinges,omitempty"`
-		Foundations       []fileGround    `json:"foundations,omitempty"`
-		Loads             []any           `json:"loads,omitempty"`
-		SelfWeight        *fileGravity    `json:"self_weight,omitempty"`
-		TemperatureChange number          `json:"temperature_change,omitempty"`
-		Mesh              fileMesh        `json:"mesh"`
-		View              fileView        `json:"view"`
+		Format            string            `json:"format"`
+		Version           int               `json:"version"`
+		Units             unitDeclaration   `json:"units"`
+		Notes             fileNotes         `json:"notes,omitzero"`
+		Member            fileMember        `json:"member"`
+		Supports          []fileSupport     `json:"supports"`
+		Hinges            []fileHinge       `json:"hinges,omitempty"`
+		Foundations       []fileGround      `json:"foundations,omitempty"`
+		Loads             []any             `json:"loads,omitempty"`
+		SelfWeight        *fileGravity      `json:"self_weight,omitempty"`
+		TemperatureChange number            `json:"temperature_change,omitempty"`
+		Cases             []fileCase        `json:"cases,omitempty"`
+		Combinations      []fileCombination `json:"combinations,omitempty"`
+		Mesh              fileMesh          `json:"mesh"`
+		View              fileView          `json:"view"`
 	}
 	fileNotes struct {
 		Project  string `json:"project,omitempty"`
@@ -335,6 +337,7 @@ func (c *converter) toFile(p *Project) fileProject {
 		f.Supports[i] = fs
 	}
 	f.Loads = c.loads(p)
+	f.Cases, f.Combinations = c.cases(p)
 	if m.Gravity != [2]float64{} {
 		f.SelfWeight = &fileGravity{X: c.num("self_weight.gravity_x", m.Gravity[0]), Y: c.num("self_weight.gravity_y", m.Gravity[1])}
 	}
@@ -347,30 +350,38 @@ func (c *converter) loads(p *Project) []any {
 	for i, ref := range fileLoads(p) {
 		path := fmt.Sprintf("loads[%d]", i)
 		if ref.kind == PointLoad {
-			l := p.Model.PointLoads[ref.index]
-			out = append(out, filePointLoad{
-				Kind:       pointKindName,
-				X:          c.num(path+".x", l.X),
-				Axial:      c.num(path+".axial", l.Axial),
-				Transverse: c.num(path+".transverse", l.Transverse),
-				Moment:     c.num(path+".moment", l.Moment),
-			})
-			continue
+			out = append(out, c.pointLoad(path, p.Model.PointLoads[ref.index]))
+		} else {
+			out = append(out, c.distributedLoad(path, p.Model.DistributedLoad[ref.index]))
 		}
-		l := p.Model.DistributedLoad[ref.index]
-		fl := fileDistributedLoad{Kind: distributedKindName, Direction: directionNames[l.Direction],
-			Points: make([][2]number, len(l.Points))}
-		if fl.Direction == "" {
-			c.problems = append(c.problems, Problem{Path: path + ".direction",
-				Message: fmt.Sprintf("direction %s is not one a distributed load can have; choose axial or transverse", l.Direction)})
-		}
-		for j, pt := range l.Points {
-			pp := fmt.Sprintf("%s.points[%d]", path, j)
-			fl.Points[j] = [2]number{c.num(pp+"[0]", pt.X), c.num(pp+"[1]", pt.Intensity)}
-		}
-		out = append(out, fl)
 	}
 	return out
+}
+
+// pointLoad is l as the file holds it at path.
+func (c *converter) pointLoad(path string, l fem.PointLoad) filePointLoad {
+	return filePointLoad{
+		Kind:       pointKindName,
+		X:          c.num(path+".x", l.X),
+		Axial:      c.num(path+".axial", l.Axial),
+		Transverse: c.num(path+".transverse", l.Transverse),
+		Moment:     c.num(path+".moment", l.Moment),
+	}
+}
+
+// distributedLoad is l as the file holds it at path.
+func (c *converter) distributedLoad(path string, l fem.DistributedLoad) fileDistributedLoad {
+	fl := fileDistributedLoad{Kind: distributedKindName, Direction: directionNames[l.Direction],
+		Points: make([][2]number, len(l.Points))}
+	if fl.Direction == "" {
+		c.problems = append(c.problems, Problem{Path: path + ".direction",
+			Message: fmt.Sprintf("direction %s is not one a distributed load can have; choose axial or transverse", l.Direction)})
+	}
+	for j, pt := range l.Points {
+		pp := fmt.Sprintf("%s.points[%d]", path, j)
+		fl.Points[j] = [2]number{c.num(pp+"[0]", pt.X), c.num(pp+"[1]", pt.Intensity)}
+	}
+	return fl
 }
 
 // loadRef names one load of a model.
@@ -382,10 +393,16 @@ type loadRef struct {
 // fileLoads gives the loads of p in file order: first as p.LoadOrder says,
 // then any loads it does not reach, point loads before distributed ones.
 func fileLoads(p *Project) []loadRef {
-	counts := [2]int{len(p.Model.PointLoads), len(p.Model.DistributedLoad)}
+	return orderedLoads(p.LoadOrder, len(p.Model.PointLoads), len(p.Model.DistributedLoad))
+}
+
+// orderedLoads gives points point loads and lines distributed loads in
+// file order: as order says, then any it does not reach.
+func orderedLoads(order []LoadKind, points, lines int) []loadRef {
+	counts := [2]int{points, lines}
 	var next [2]int
 	refs := make([]loadRef, 0, counts[0]+counts[1])
-	for _, k := range p.LoadOrder {
+	for _, k := range order {
 		if (k == PointLoad || k == DistributedLoad) && next[k] < counts[k] {
 			refs = append(refs, loadRef{k, next[k]})
 			next[k]++

@@ -172,7 +172,11 @@ func TestMigrateAppliesStepsInOrder(t *testing.T) {
 // loads numbered in file order (docs/format.md).
 func TestModelPathOfEveryProperty(t *testing.T) {
 	// File order: distributed load 0, point load 0, point load 1.
-	loads := [2][]string{PointLoad: {"loads[1]", "loads[2]"}, DistributedLoad: {"loads[0]"}}
+	// Case 1's loads: point load 0 second, distributed load 0 first.
+	loads := [][2][]string{
+		{PointLoad: {"loads[1]", "loads[2]"}, DistributedLoad: {"loads[0]"}},
+		{PointLoad: {"cases[0].loads[1]"}, DistributedLoad: {"cases[0].loads[0]"}},
+	}
 	at := func(kind fem.ItemKind, i int, p fem.Property) fem.Place {
 		return fem.Place{Item: fem.Item{Kind: kind, Index: i}, Property: p}
 	}
@@ -185,6 +189,9 @@ func TestModelPathOfEveryProperty(t *testing.T) {
 	gravityY.Dof = fem.Transverse
 	pointX, intensity := at(fem.DistributedLoadItem, 0, fem.PointXProperty), at(fem.DistributedLoadItem, 0, fem.PointIntensityProperty)
 	pointX.Vertex, intensity.Vertex = 2, 3
+	inCase := func(p fem.Place) fem.Place { p.Item.Case = 1; return p }
+	factorCase, factor := at(fem.CombinationItem, 2, fem.FactorCaseProperty), at(fem.CombinationItem, 2, fem.FactorProperty)
+	factorCase.Vertex, factor.Vertex = 1, 1
 	tests := []struct {
 		place fem.Place
 		path  string
@@ -233,6 +240,16 @@ func TestModelPathOfEveryProperty(t *testing.T) {
 		{at(fem.FoundationItem, 0, fem.EndProperty), "foundations[0].end"},
 		{at(fem.FoundationItem, 0, fem.ModulusProperty), "foundations[0].modulus"},
 		{at(fem.FoundationItem, 2, fem.AxialModulusProperty), "foundations[2].axial_modulus"},
+		{inCase(at(fem.PointLoadItem, 0, fem.PositionProperty)), "cases[0].loads[1].x"},
+		{inCase(pointX), "cases[0].loads[0].points[2][0]"},
+		{at(fem.CaseItem, 1, fem.NoProperty), "cases[1]"},
+		{at(fem.CaseItem, 1, fem.NameProperty), "cases[1].name"},
+		{at(fem.CaseItem, 0, fem.TemperatureChangeProperty), "cases[0].temperature_change"},
+		{at(fem.CombinationItem, 2, fem.NameProperty), "combinations[2].name"},
+		{at(fem.CombinationItem, 2, fem.FactorsProperty), "combinations[2].factors"},
+		{at(fem.CombinationItem, 2, fem.CombinationKindProperty), "combinations[2].kind"},
+		{factorCase, "combinations[2].factors[1].case"},
+		{factor, "combinations[2].factors[1].factor"},
 	}
 	covered := map[fem.Property]bool{}
 	for _, tt := range tests {
@@ -242,9 +259,6 @@ func TestModelPathOfEveryProperty(t *testing.T) {
 		}
 	}
 	for p := fem.NoProperty; p <= fem.AxialModulusProperty; p++ {
-		if p > fem.TemperatureChangeProperty && p < fem.ModulusProperty {
-			continue // the load cases' and combinations' properties are not in this table
-		}
 		if !covered[p] {
 			t.Errorf("property %d has no row in this table", p)
 		}

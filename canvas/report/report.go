@@ -76,6 +76,8 @@ type Options struct {
 	// Units is the unit system of every product; the zero System for the
 	// project's display units (Export) or the source's (Write).
 	Units units.System
+	// Show is what to show of a model with load cases (Export).
+	Show analysis.Show
 }
 
 // Defaults of Options and of the results table.
@@ -161,6 +163,7 @@ func Export(ctx context.Context, w io.Writer, p *storage.Project, product string
 		return fmt.Errorf("cannot export %q: choose one of %s", product, productList())
 	}
 	r := Request(p, nil)
+	r.Show = opts.Show
 	if opts.Units.Name != "" {
 		r.Checks.Units = opts.Units // the checks' messages too
 	}
@@ -182,6 +185,7 @@ func Input(src Source) canvas.Input {
 		in.Problem = a.Problem()
 		in.Unreliable = analysis.Unreliable(src.Findings)
 		in.Marks = marks(src.Findings)
+		in.Envelope = envelopeInput(a)
 	}
 	return in
 }
@@ -224,6 +228,7 @@ func Write(w io.Writer, src Source, product string, opts Options) error {
 			Input:  in,
 			Notes:  canvas.SheetNotes{Project: n.Project, Mark: n.Member, Engineer: n.Engineer, Date: n.Date, Version: Version},
 			Checks: analysis.Flagged(src.Findings),
+			Cases:  sheetCaseLines(src),
 		})
 	case "csv":
 		if in.Solution == nil {

@@ -18,14 +18,16 @@ func WriteJSON(w io.Writer, v any) error {
 }
 
 // WriteSummaryJSON writes the summary of the model in file path as JSON, in
-// SI base units, with the caution.
-func WriteSummaryJSON(w io.Writer, path string, s fem.Summary) error {
+// SI base units, with the caution, and the cases, combinations and
+// envelope of a model with load cases when cases is not nil (cases.go).
+func WriteSummaryJSON(w io.Writer, path string, s fem.Summary, cases *CasesJSON) error {
 	return WriteJSON(w, struct {
 		File    string `json:"file"`
 		Units   string `json:"units"`
 		Caution string `json:"caution"`
 		fem.Summary
-	}{path, "SI base units: m, N, N·m, Pa, rad", fem.Caution, s})
+		*CasesJSON
+	}{path, "SI base units: m, N, N·m, Pa, rad", fem.Caution, s, cases})
 }
 
 // WriteSummaryText writes the summary of the model in file path as text

@@ -27,6 +27,7 @@ func exportCommand(args []string, stdout io.Writer) error {
 	height := fs.Float64("height", 0, "drawing height in points (default 800)")
 	points := fs.Int("points", 0, "CSV only: sample each element at N+1 evenly spaced points, both ends included (default 4; fewer from 20,000 elements on)")
 	system := fs.String("units", "", "unit system of the output: SI or US (default: the file's display units)")
+	show := fs.String("show", "", "a model with load cases: draw one case or combination by NAME, or the envelope (the default)")
 	path, err := parseOneFile(fs, args)
 	if err != nil {
 		return err
@@ -61,6 +62,9 @@ func exportCommand(args []string, stdout io.Writer) error {
 	p, err := storage.Load(path)
 	if err != nil {
 		return modelError{err}
+	}
+	if opts.Show, err = showFlag(&p.Model, *show); err != nil {
+		return err
 	}
 	n, err := writeExport(*out, func(w io.Writer) error {
 		return report.Export(context.Background(), w, p, kind, opts)

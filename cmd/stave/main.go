@@ -3,8 +3,8 @@
 // With no arguments it opens the window on the built-in demo model; with a
 // file it opens that file. The subcommands work without a display:
 //
-//	stave solve [--json] [--units SI|US] FILE
-//	stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet] [--dpi N] [--points N] [--units SI|US]
+//	stave solve [--json] [--units SI|US] [--show NAME] FILE
+//	stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet] [--dpi N] [--points N] [--units SI|US] [--show NAME]
 //	stave converge [--json] [--max N] FILE
 //	stave check [--json | --csv] [--workers N] FILE... | DIR
 //	stave bench [--json]
@@ -41,9 +41,9 @@ func (e modelError) Unwrap() error { return e.err }
 
 const usage = `usage:
   stave [FILE]                         open the window (on the demo model without FILE)
-  stave solve [--json] [--units SI|US] FILE
+  stave solve [--json] [--units SI|US] [--show NAME] FILE
   stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet] [--dpi N]
-               [--points N] [--units SI|US]
+               [--points N] [--units SI|US] [--show NAME]
   stave converge [--json] [--max N] FILE
   stave check [--json | --csv] [--workers N] FILE... | DIR
   stave bench [--json]

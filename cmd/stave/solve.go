@@ -19,6 +19,7 @@ func solveCommand(args []string, stdout io.Writer) error {
 	fs := newFlagSet("solve")
 	asJSON := fs.Bool("json", false, "print the summary as JSON (SI units)")
 	system := fs.String("units", "", "unit system for the printed text: SI or US (default: the file's display units)")
+	show := fs.String("show", "", "a model with load cases: print one case or combination by NAME, or the envelope")
 	path, err := parseOneFile(fs, args)
 	if err != nil {
 		return err
@@ -27,7 +28,11 @@ func solveCommand(args []string, stdout io.Writer) error {
 	if err != nil {
 		return modelError{err}
 	}
-	a, err := analysis.Run(context.Background(), report.Request(p, nil))
+	r := report.Request(p, nil)
+	if r.Show, err = showFlag(&p.Model, *show); err != nil {
+		return err
+	}
+	a, err := analysis.Run(context.Background(), r)
 	if err != nil {
 		return err
 	}
@@ -35,8 +40,12 @@ func solveCommand(args []string, stdout io.Writer) error {
 		return modelError{fmt.Errorf("%s: %w", path, a.Err)}
 	}
 	sum := a.Summary()
+	cases, err := report.CasesResults(&a)
+	if err != nil {
+		return modelError{fmt.Errorf("%s: %w", path, err)}
+	}
 	if *asJSON {
-		return report.WriteSummaryJSON(stdout, path, sum)
+		return report.WriteSummaryJSON(stdout, path, sum, cases)
 	}
 	name := *system
 	if name == "" {
@@ -45,6 +54,13 @@ func solveCommand(args []string, stdout io.Writer) error {
 	sys, ok := units.ByName(name)
 	if !ok {
 		return usageError{fmt.Sprintf("unknown unit system %q: use SI or US", name)}
+	}
+	if cases != nil && r.Show.Kind == analysis.ShowEnvelope {
+		report.WriteCasesText(stdout, path, cases, sys)
+		return nil
+	}
+	if cases != nil {
+		fmt.Fprintf(stdout, "Showing %s\n", cases.Shown)
 	}
 	report.WriteSummaryText(stdout, path, sum, sys)
 	return nil

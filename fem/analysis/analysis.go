@@ -30,6 +30,8 @@ type Request struct {
 	Nodes []float64
 	// Checks are the limits of the checks, messages in their display units.
 	Checks check.Options
+	// Show is what to show of a model with load cases (cases.go).
+	Show Show
 }
 
 // Analysis is what the stages found for one model.
@@ -45,6 +47,9 @@ type Analysis struct {
 	ExactErr error
 	Checks   []check.Result // nil when there is no solution
 	Handbook *check.Case    // the handbook case the model matches, if any
+	// Cases are the combinations and the envelope of a model with load
+	// cases (cases.go); nil for a model without.
+	Cases *Cases
 	// Complete says Finish has run to its end.
 	Complete bool
 	// summary is what Finish's walk gathered for Summary; shared by the
@@ -62,6 +67,10 @@ func Solve(ctx context.Context, r Request) (Analysis, error) {
 	a := Analysis{Model: r.Model, Nodes: r.Nodes}
 	if len(r.Model.Segments) == 0 {
 		a.Err = errors.New("no member yet: drag along the drawing with the Member tool, or type a length")
+		return a, nil
+	}
+	if len(r.Model.Cases) > 0 {
+		solveCases(&a, r)
 		return a, nil
 	}
 	if r.Nodes == nil {
@@ -89,7 +98,12 @@ func Finish(ctx context.Context, r Request, a Analysis) (Analysis, error) {
 	if err := ctx.Err(); err != nil {
 		return a, err
 	}
-	a.Exact, a.ExactErr = fem.SolveExact(&a.Model)
+	if a.Cases != nil {
+		a.Cases = a.Cases.clone()
+		a.Exact, a.ExactErr = a.Cases.exact()
+	} else {
+		a.Exact, a.ExactErr = fem.SolveExact(&a.Model)
+	}
 	if err := ctx.Err(); err != nil {
 		return a, err
 	}
@@ -101,6 +115,9 @@ func Finish(ctx context.Context, r Request, a Analysis) (Analysis, error) {
 		a.Checks = p.Results(z.Comparison(), r.Checks)
 		sum := z.Summary()
 		a.summary = &sum
+		if a.Cases != nil {
+			a.Cases.finish(&a, r.Checks)
+		}
 	}
 	if c, ok := check.Handbook(&a.Model); ok {
 		a.Handbook = &c
