@@ -33,6 +33,7 @@ type ErrorNorms struct {
 	MaxDeflection     float64 // max |w_h − w| over the member, m
 	MaxAxial          float64 // max |u_h − u|, m
 	MaxStress         float64 // max |σ_h − σ| of the combined stress, Pa (see Comparison)
+	MaxStressAt       float64 // where MaxStress is reached, m; the first such place along the member
 	MaxStressRelative float64 // the largest stress error, relative (see above)
 	RelativeL2        float64 // the displacement error, relative
 	RelativeEnergy    float64 // the energy error, relative
@@ -240,6 +241,7 @@ func (c *Comparison) Norms() ErrorNorms {
 		MaxDeflection: m.deflection,
 		MaxAxial:      m.axial,
 		MaxStress:     m.stress,
+		MaxStressAt:   m.stressAt,
 		MaxStressRelative: relativeError(m.stress, ex.stress, ex.stressTerms,
 			func() float64 { return own().stressTerms }),
 		RelativeL2: relativeError(math.Sqrt(in.dispErr), math.Sqrt(ex.disp),

@@ -124,10 +124,10 @@ func TestCheckFindingsWords(t *testing.T) {
 
 func TestFlagged(t *testing.T) {
 	fs := []Finding{
-		finding(Caution, "material", "odd"),
-		finding(OK, "equilibrium", "fine"),
-		finding(Fail, "stress", "too high"),
-		finding(Note, "exact", "none"),
+		finding(CodeMaterial, "material", "odd"),
+		finding(CodeVerified, "equilibrium", "fine"),
+		finding(CodeDesignFail, "stress", "too high"),
+		finding(CodeDesignNotChecked, "exact", "none"),
 	}
 	got := Flagged(fs)
 	want := []string{"FAIL — stress: too high", "caution — material: odd"}
