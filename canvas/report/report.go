@@ -238,7 +238,7 @@ func Write(w io.Writer, src Source, product string, opts Options) error {
 			Checks: warningSentences(src.Findings),
 		}
 		if a := src.Analysis; a != nil && a.Solution != nil {
-			sheet.Mesh = MeshChoice(a.Summary())
+			sheet.Mesh = analysis.MeshChoice(a.Summary())
 		}
 		return canvas.WriteSheet(w, strings.TrimPrefix(product, "sheet-"), sheet)
 	case "csv":

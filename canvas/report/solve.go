@@ -477,26 +477,7 @@ func percent(v float64) string { return fmt.Sprintf("%.3g %%", 100*v) }
 func WriteMeshText(w io.Writer, sum fem.Summary) {
 	fmt.Fprintf(w, "Mesh: %d elements, %d nodes, bar elements of order %d, condition estimate %.2g\n",
 		sum.Mesh.Elements, sum.Mesh.Nodes, sum.Mesh.BarOrder, sum.Mesh.Condition)
-	fmt.Fprintln(w, "  "+MeshChoice(sum))
-}
-
-// MeshChoice says who chose the mesh and the accuracy its finite element
-// extremes reach against the exact ones, in one sentence.
-func MeshChoice(sum fem.Summary) string {
-	who := "set in the model"
-	if sum.Mesh.Automatic {
-		who = "chosen by Stave (" + sum.Mesh.Note + ")"
-	}
-	worst, ok := sum.Worst()
-	if !ok {
-		return fmt.Sprintf("The mesh is %s; with no exact solution its accuracy is not measured.", who)
-	}
-	verdict := "within"
-	if worst.Accuracy > fem.MeshAccuracy {
-		verdict = "beyond"
-	}
-	return fmt.Sprintf("The mesh is %s; its finite element extremes are up to %s of a field's largest magnitude from the exact ones (worst: %s), %s the default mesh's %s.",
-		who, percent(worst.Accuracy), worst.Quantity, verdict, percent(fem.MeshAccuracy))
+	fmt.Fprintln(w, "  "+analysis.MeshChoice(sum))
 }
 
 // writeEquilibriumText writes the balance of loads and reactions, of the

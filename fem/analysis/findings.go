@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 	"strings"
 
@@ -279,7 +280,8 @@ func Flagged(fs []Finding) []string {
 }
 
 // MeshText is one line on the mesh and the balance of the solution, in
-// units u; the problem when there is no solution.
+// units u, then who chose the mesh and the accuracy it reaches; the
+// problem when there is no solution.
 func (a *Analysis) MeshText(u units.System) string {
 	if a.Solution == nil {
 		return "no results: " + a.Problem()
@@ -287,8 +289,95 @@ func (a *Analysis) MeshText(u units.System) string {
 	s := a.Solution
 	e := s.Equilibrium
 	res := math.Max(math.Abs(e.Residual[0]), math.Abs(e.Residual[1]))
-	return fmt.Sprintf("%d elements, %d nodes · out of balance %s, %s · condition ≈ %.2g",
+	text := fmt.Sprintf("%d elements, %d nodes · out of balance %s, %s · condition ≈ %.2g",
 		len(s.Mesh.Elements), len(s.Mesh.X), u.Format(units.Force, res), u.Format(units.Moment, math.Abs(e.Residual[2])), s.Condition)
+	if a.summary != nil {
+		text += "\n" + MeshChoice(*a.summary)
+	}
+	return text
+}
+
+// MeshChoice says who chose the mesh and the accuracy its finite element
+// extremes reach against the exact ones, in one or two sentences.
+func MeshChoice(sum fem.Summary) string {
+	who := "set in the model"
+	if sum.Mesh.Automatic {
+		who = "chosen by Stave (" + sum.Mesh.Note + ")"
+	}
+	worst, ok := sum.Worst()
+	if !ok {
+		return fmt.Sprintf("The mesh is %s; with no exact solution its accuracy is not measured.", who)
+	}
+	verdict := "within"
+	if worst.Accuracy > fem.MeshAccuracy {
+		verdict = "beyond"
+	}
+	return fmt.Sprintf("The mesh is %s; its finite element extremes are up to %.3g %% of a field's largest magnitude from the exact ones (worst: %s), %s the default mesh's %.3g %%.",
+		who, 100*worst.Accuracy, worst.Quantity, verdict, 100*fem.MeshAccuracy)
+}
+
+// headlineQuantities are the fields HeadlineText lists.
+var headlineQuantities = []fem.Quantity{fem.QDeflection, fem.QAxialForce, fem.QShearForce, fem.QBendingMoment, fem.QCombinedStress}
+
+// HeadlineText lists, in units u, what an engineer reads first: each
+// reaction component a support holds, the largest and smallest deflection,
+// axial and shear force, bending moment and combined stress with their
+// places (fields that are zero left out), and the actions at the supports
+// inside the member, each the exact value with the finite element one
+// beside; the finite element values alone, labelled FE, without an exact
+// solution. "" before Finish.
+func (a *Analysis) HeadlineText(u units.System) string {
+	if a.summary == nil {
+		return ""
+	}
+	sum := a.summary
+	pos := func(x float64) string { return u.Format(units.Position, x) }
+	value := func(k units.Kind, v, fe float64) string {
+		if !sum.Exact {
+			return u.Format(k, fe) + " FE"
+		}
+		return fmt.Sprintf("%s (FE %s)", u.Format(k, v), u.Format(k, fe))
+	}
+	var b strings.Builder
+	if sum.Exact {
+		b.WriteString("Exact values, finite element (FE) beside:")
+	} else {
+		b.WriteString("No exact solution: finite element (FE) values:")
+	}
+	for _, r := range sum.Reactions {
+		var parts []string
+		for d, c := range []struct {
+			name  string
+			kind  units.Kind
+			v, fe float64
+		}{{"axial", units.Force, r.Axial, r.FE.Axial}, {"transverse", units.Force, r.Transverse, r.FE.Transverse}, {"moment", units.Moment, r.Moment, r.FE.Moment}} {
+			if r.Holds[d] {
+				parts = append(parts, c.name+" "+value(c.kind, c.v, c.fe))
+			}
+		}
+		fmt.Fprintf(&b, "\n• reaction %d (%s, %s): %s", r.Support, r.Kind, pos(r.X), strings.Join(parts, ", "))
+	}
+	for _, e := range sum.Extremes {
+		if !slices.Contains(headlineQuantities, e.Quantity) || e.Max == 0 && e.Min == 0 && e.FEMax == 0 && e.FEMin == 0 {
+			continue
+		}
+		k := e.Quantity.Info().Unit
+		if !sum.Exact {
+			fmt.Fprintf(&b, "\n• %s from %s at %s to %s at %s, FE", e.Quantity, u.Format(k, e.FEMin), pos(e.FEXMin), u.Format(k, e.FEMax), pos(e.FEXMax))
+			continue
+		}
+		fmt.Fprintf(&b, "\n• %s from %s at %s to %s at %s (FE %s at %s, %s at %s)", e.Quantity,
+			u.Format(k, e.Min), pos(e.XMin), u.Format(k, e.Max), pos(e.XMax),
+			u.Format(k, e.FEMin), pos(e.FEXMin), u.Format(k, e.FEMax), pos(e.FEXMax))
+	}
+	for _, s := range sum.Supports {
+		fmt.Fprintf(&b, "\n• at support %d (%s): V %s left, %s right; M %s", s.Support, pos(s.X),
+			value(units.Force, s.Shear[0], s.FEShear[0]), value(units.Force, s.Shear[1], s.FEShear[1]), value(units.Moment, s.Moment[0], s.FEMoment[0]))
+		if math.Abs(s.Moment[1]-s.Moment[0]) > 1e-9*math.Max(math.Abs(s.Moment[0]), math.Abs(s.Moment[1])) {
+			fmt.Fprintf(&b, " left, %s right", value(units.Moment, s.Moment[1], s.FEMoment[1]))
+		}
+	}
+	return b.String()
 }
 
 // HandbookText shows the handbook case the model matches, with each
