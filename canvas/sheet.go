@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"image/color"
 	"io"
+	"math"
 	"strings"
 
 	"stave/fem"
@@ -167,7 +168,9 @@ func (sh *sheet) reserve(in SheetInput) float32 {
 	line := TextHeight(sheetSmall) + 1
 	h := float32(0)
 	if s := in.Input.Solution; s != nil {
-		h += line*float32(14+3*len(s.Reactions)+len(s.Model.Supports)) + 12*line + 30
+		// The note, two headers, nine extremes, the inside supports'
+		// header, equilibrium, two lines on the mesh and one on the error.
+		h += line*float32(18+len(s.Reactions)+len(s.Model.Supports)) + 9 + 30
 	} else {
 		h += 3*line + 25
 	}
@@ -255,35 +258,33 @@ func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 	if !sum.Exact {
 		head = "FE"
 	}
-	pair := func(k units.Kind, v, fe float64) []string {
+	// value is the headline value with the finite element one beside it.
+	value := func(k units.Kind, v, fe float64) string {
 		if !sum.Exact {
-			return []string{f(k, fe), ""}
+			return f(k, fe)
 		}
-		return []string{f(k, v), f(k, fe)}
+		return f(k, v) + " (FE " + f(k, fe) + ")"
 	}
-	feHead := "FE"
-	if !sum.Exact {
-		feHead = ""
-	}
-	xs := []float32{sheetEdge, sheetEdge + 95, sheetEdge + 150, sheetEdge + 215, sheetEdge + 300}
-	sh.row([]string{"reaction", "at", "component", head, feHead}, xs, sheetSmall, faintColour, true)
+	xs := []float32{sheetEdge, sheetEdge + 95, sheetEdge + 150, sheetEdge + 280, sheetEdge + 410}
+	sh.row([]string{"reaction", "at", "axial, " + head, "transverse, " + head, "moment, " + head}, xs, sheetSmall, faintColour, true)
 	for _, r := range sum.Reactions {
-		lead := []string{fmt.Sprintf("support %d (%s)", r.Support, r.Kind), f(units.Position, r.X)}
+		cols := []string{fmt.Sprintf("support %d (%s)", r.Support, r.Kind), f(units.Position, r.X)}
 		for _, c := range []struct {
-			name  string
 			held  bool
 			kind  units.Kind
 			v, fe float64
 		}{
-			{"axial", r.Holds[fem.Axial], units.Force, r.Axial, r.FE.Axial},
-			{"transverse", r.Holds[fem.Transverse], units.Force, r.Transverse, r.FE.Transverse},
-			{"moment", r.Holds[fem.Rotation], units.Moment, r.Moment, r.FE.Moment},
+			{r.Holds[fem.Axial], units.Force, r.Axial, r.FE.Axial},
+			{r.Holds[fem.Transverse], units.Force, r.Transverse, r.FE.Transverse},
+			{r.Holds[fem.Rotation], units.Moment, r.Moment, r.FE.Moment},
 		} {
+			text := "—"
 			if c.held {
-				sh.row(append(append(lead, c.name), pair(c.kind, c.v, c.fe)...), xs, sheetSmall, inkColour, false)
-				lead = []string{"", ""}
+				text = value(c.kind, c.v, c.fe)
 			}
+			cols = append(cols, text)
 		}
+		sh.row(cols, xs, sheetSmall, inkColour, false)
 	}
 	sh.y += 3
 	xs = []float32{sheetEdge, sheetEdge + 95, sheetEdge + 160, sheetEdge + 210, sheetEdge + 275, sheetEdge + 340, sheetEdge + 390, sheetEdge + 455}
@@ -300,24 +301,20 @@ func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 			continue
 		}
 		sh.row([]string{quantityWords(e.Quantity), f(q, e.Max), f(units.Position, e.XMax), f(q, e.FEMax),
-			f(q, e.Min), f(units.Position, e.XMin), f(q, e.FEMin), fmt.Sprintf("%.2g %%", 100*e.Accuracy)},
+			f(q, e.Min), f(units.Position, e.XMin), f(q, e.FEMin), fmt.Sprintf("%.3g %%", 100*e.Accuracy)},
 			xs, sheetSmall, inkColour, false)
 	}
 	if len(sum.Supports) > 0 {
 		sh.y += 3
-		xs = []float32{sheetEdge, sheetEdge + 95, sheetEdge + 150, sheetEdge + 215, sheetEdge + 280, sheetEdge + 345, sheetEdge + 410}
-		if sum.Exact {
-			sh.row([]string{"inside support", "at", "V left", "V right", "M left", "M right", "FE: V, M"}, xs, sheetSmall, faintColour, true)
-		} else {
-			sh.row([]string{"inside support", "at", "V left FE", "V right FE", "M left FE", "M right FE"}, xs, sheetSmall, faintColour, true)
-		}
+		xs = []float32{sheetEdge, sheetEdge + 95, sheetEdge + 150, sheetEdge + 280, sheetEdge + 410}
+		sh.row([]string{"inside support", "at", "V left, " + head, "V right, " + head, "M, " + head}, xs, sheetSmall, faintColour, true)
 		for _, a := range sum.Supports {
-			cols := []string{fmt.Sprintf("support %d (%s)", a.Support, a.Kind), f(units.Position, a.X),
-				f(units.Force, a.Shear[0]), f(units.Force, a.Shear[1]), f(units.Moment, a.Moment[0]), f(units.Moment, a.Moment[1])}
-			if sum.Exact {
-				cols = append(cols, fmt.Sprintf("%s, %s; %s", f(units.Force, a.FEShear[0]), f(units.Force, a.FEShear[1]), f(units.Moment, a.FEMoment[1])))
+			moment := value(units.Moment, a.Moment[0], a.FEMoment[0])
+			if math.Abs(a.Moment[1]-a.Moment[0]) > 1e-9*math.Max(math.Abs(a.Moment[0]), math.Abs(a.Moment[1])) {
+				moment = f(units.Moment, a.Moment[0]) + " / " + value(units.Moment, a.Moment[1], a.FEMoment[1])
 			}
-			sh.row(cols, xs, sheetSmall, inkColour, false)
+			sh.row([]string{fmt.Sprintf("support %d (%s)", a.Support, a.Kind), f(units.Position, a.X),
+				value(units.Force, a.Shear[0], a.FEShear[0]), value(units.Force, a.Shear[1], a.FEShear[1]), moment}, xs, sheetSmall, inkColour, false)
 		}
 	}
 	sh.y += 3

@@ -189,11 +189,16 @@ func Input(src Source) canvas.Input {
 	return in
 }
 
-// warningSentences are the warnings among fs, one sentence each with its code.
+// warningSentences are the warnings among fs for a one-page sheet, each
+// with its code: failures and cautions in full, notes by their name alone.
 func warningSentences(fs []analysis.Finding) []string {
 	var out []string
 	for _, f := range analysis.Warnings(fs) {
-		out = append(out, fmt.Sprintf("[%s] %s", f.Code, f.Sentence()))
+		text := f.Sentence()
+		if !f.Severity.Flagged() {
+			text = f.Status + " — " + f.Name
+		}
+		out = append(out, fmt.Sprintf("[%s] %s", f.Code, text))
 	}
 	return out
 }

@@ -237,8 +237,8 @@ func TestCoarseMeshFinding(t *testing.T) {
 	if f.Code != CodeCoarseMesh || f.Severity != Caution || f.Doubtful || !f.Located || f.At != 0 {
 		t.Fatalf("coarse mesh finding %+v among %v", f, codes(fs))
 	}
-	for _, want := range []string{"differ by 100 % of the largest shear force", "20.00 kN at x = 0 m exactly", "in the FE solution",
-		"bending moment 66.7 %", "headline values", "set in the model"} {
+	for _, want := range []string{"differ by 100 % of the largest shear force", "20.00 kN at x = 0 m exactly", "in the finite element (FE) solution",
+		"Also beyond 0.5 %: deflection 20 %, bending moment 66.7 %", "headline values", "set in the model"} {
 		if !strings.Contains(f.Message, want) {
 			t.Errorf("coarse mesh message lacks %q: %s", want, f.Message)
 		}

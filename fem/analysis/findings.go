@@ -150,17 +150,17 @@ func (a *Analysis) coarseMesh() (Finding, bool) {
 			others = append(others, fmt.Sprintf("%s %.3g %%", e.Quantity, 100*e.Accuracy))
 		}
 	}
-	msg := fmt.Sprintf("The finite element (FE) and exact values differ by %.3g %% of the largest %s at x = %s: the %s %s is %s at x = %s exactly, and %s at x = %s in the FE solution on this mesh. ",
+	msg := fmt.Sprintf("FE and exact differ by %.3g %% of the largest %s at x = %s: the %s %s is %s at x = %s exactly, %s at x = %s in the finite element (FE) solution on this mesh. ",
 		100*worst.Accuracy, q.Name, u.Format(units.Position, at), which, q.Name,
 		u.Format(q.Unit, exact), u.Format(units.Position, at), u.Format(q.Unit, fe), u.Format(units.Position, feAt))
 	if len(others) > 0 {
-		msg += "Other fields off by more than 0.5 %: " + strings.Join(others, ", ") + ". "
+		msg += "Also beyond 0.5 %: " + strings.Join(others, ", ") + ". "
 	}
-	msg += "The headline values (reactions, extremes, actions at the supports, design checks) are the exact ones; the FE values beside them and the FE diagrams are this mesh's approximation. "
+	msg += "The headline values are the exact ones; the FE values beside them and the FE diagrams are this mesh's approximation. "
 	if sum.Mesh.Automatic {
-		msg += "Stave chose this mesh (" + sum.Mesh.Note + ") and it falls short of its 0.5 % accuracy."
+		msg += "Stave chose this mesh (" + sum.Mesh.Note + ") and it falls short of its 0.5 %."
 	} else {
-		msg += "The mesh is set in the model: leave it to Stave (0 elements) for FE extremes within 0.5 % of the exact ones, or refine it."
+		msg += "The mesh is set in the model: leave it to Stave (0 elements) for FE extremes within 0.5 % of the exact ones."
 	}
 	f := finding(CodeCoarseMesh, fmt.Sprintf("FE and exact differ by %.3g %% (%s)", 100*worst.Accuracy, q.Name), msg)
 	f.At, f.Located = at, true
