@@ -128,6 +128,7 @@ func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Vers
 		WriteAdaptiveText(w, *v, nil)
 	}
 	if findings != nil {
+		fmt.Fprintln(w, "\nThe model on its own mesh, checked as `stave solve` checks it:")
 		WriteWarningsText(w, findings)
 	}
 	fmt.Fprintln(w, "\nCaution:", fem.Caution)

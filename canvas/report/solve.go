@@ -391,7 +391,8 @@ func WriteResultsText(w io.Writer, src Source) {
 	fmt.Fprintln(tw, "\nReactions (forces of the supports on the member; +x along the member, up positive, moments counter-clockwise)")
 	fmt.Fprintln(tw, columns("  support\tkind\tx\tcomponent"))
 	for _, r := range sum.Reactions {
-		for d, c := range []struct {
+		lead := fmt.Sprintf("  %d\t%s\t%s", r.Support, r.Kind, pos(r.X))
+		for _, c := range []struct {
 			name    string
 			kind    units.Kind
 			v, fe   float64
@@ -404,11 +405,8 @@ func WriteResultsText(w io.Writer, src Source) {
 			if !c.holding {
 				continue
 			}
-			lead := fmt.Sprintf("  %d\t%s\t%s", r.Support, r.Kind, pos(r.X))
-			if d > 0 && (r.Holds[fem.Axial] || d > 1 && r.Holds[fem.Transverse]) {
-				lead = "  \t\t"
-			}
 			fmt.Fprintf(tw, "%s\t%s\t%s\n", lead, c.name, values(c.kind, c.v, c.fe))
+			lead = "  \t\t" // the support once, on its first component
 		}
 	}
 	tw.Flush()
