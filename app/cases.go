@@ -109,12 +109,22 @@ func (r *readout) showEnvelope(w *Window, x float64) bool {
 		return false
 	}
 	c := a.Cases
-	s := c.Solutions.At(x, fem.Right, false)
+	fe := c.Solutions.At(x, fem.Right, false)
+	ex, exact := fe, c.Solutions.FixedExact != nil
+	if exact {
+		ex = c.Solutions.At(x, fem.Right, true)
+	}
 	r.at.SetText(fmt.Sprintf("At x = %s (under the mouse): the envelope of %d combinations, smallest … largest, and the combinations that give them", w.position(x), len(c.Combinations)))
 	r.fill(w.units, func(q fem.Quantity) (string, string) {
 		unit := q.Info().Unit
-		lo, hi := shortNumber(w.units.ToDisplay(unit, q.Of(&s.Lo))), shortNumber(w.units.ToDisplay(unit, q.Of(&s.Hi)))
-		return lo + " … " + hi, c.Combinations[s.LoBy[q]].Name + " / " + c.Combinations[s.HiBy[q]].Name
+		span := func(s *fem.EnvelopeSample) string {
+			return shortNumber(w.units.ToDisplay(unit, q.Of(&s.Lo))) + " … " + shortNumber(w.units.ToDisplay(unit, q.Of(&s.Hi)))
+		}
+		by := " (" + c.Combinations[ex.LoBy[q]].Name + " / " + c.Combinations[ex.HiBy[q]].Name + ")"
+		if !exact {
+			return "—", span(&fe) + by
+		}
+		return span(&ex) + by, span(&fe)
 	})
 	return true
 }

@@ -84,7 +84,7 @@ func TestCasesInTheWindow(t *testing.T) {
 		t.Errorf("readout heading %q", txt)
 	}
 	row := w.ui.readout.rows[fem.QBendingMoment]
-	if !strings.Contains(row[columnFE], "…") || !strings.Contains(row[columnExact], "strength") {
+	if !strings.Contains(row[columnFE], "…") || !strings.Contains(row[columnExact], "…") || !strings.Contains(row[columnExact], "strength") {
 		t.Errorf("readout of M: %q", row)
 	}
 	// The checks name their governing combination.

@@ -16,6 +16,7 @@ import (
 // one small dense system per problem (bar, beam) whose size grows with the
 // number of stretches and supports, not with any mesh.
 type Exact struct {
+	model     *Model    // the model solved (shared with its ExactStructure)
 	keys      []float64 // key points in increasing order: keys[0] = 0, last = L
 	stretches []exactStretch
 	reactions []Reaction
@@ -245,7 +246,7 @@ func (es *ExactStructure) Solve(l *Loads) (*Exact, error) {
 
 // blank is an Exact with the stretches of the loads l and no constants yet.
 func (es *ExactStructure) blank(l *Loads) *Exact {
-	e := &Exact{keys: es.keys, stretches: make([]exactStretch, len(es.keys)-1), reactions: make([]Reaction, len(es.model.Supports))}
+	e := &Exact{model: es.model, keys: es.keys, stretches: make([]exactStretch, len(es.keys)-1), reactions: make([]Reaction, len(es.model.Supports))}
 	for j := range e.stretches {
 		e.stretches[j] = newStretch(es.model, l, j)
 	}

@@ -275,15 +275,16 @@ func (g *groundBasis) decaying(k, upto int, t float64) [4]float64 {
 }
 
 // Foundations returns what each foundation carries in the exact solution,
-// in the order of Model.Foundations. On a stretch on a foundation k·w = q −
+// in the order of Model.Foundations; nil without foundations. On a stretch on a foundation k·w = q −
 // EI·w⁗ and kₐ·u = p + EA·u″, so the foundation's resultant follows from
 // the loads and the section actions at the stretch's ends, in closed
 // form: −∫k·w dx = −∫q dx + (V(b) − V(a)), its moment about x = 0 −∫x·q dx
 // + [x·V − M] from a to b, and −∫kₐ·u dx = −∫p dx − (N(b) − N(a)).
-func (e *Exact) Foundations(m *Model) []FoundationReaction {
-	if e == nil || len(m.Foundations) == 0 {
+func (e *Exact) Foundations() []FoundationReaction {
+	if e == nil || len(e.model.Foundations) == 0 {
 		return nil
 	}
+	m := e.model
 	out := make([]FoundationReaction, len(m.Foundations))
 	for i, f := range m.Foundations {
 		out[i] = FoundationReaction{Foundation: i, Start: f.Start, End: f.End}

@@ -71,7 +71,7 @@ func TestLongBeamOnFoundationPointLoad(t *testing.T) {
 	// under the load. The FE one is as good as its solve: within the
 	// round-off its condition number allows (Solution.Condition).
 	roundOff := max(1e-9, 4*s.Condition*0x1p-52)
-	for name, rs := range map[string][]FoundationReaction{"FE": s.Foundations, "exact": e.Foundations(m)} {
+	for name, rs := range map[string][]FoundationReaction{"FE": s.Foundations, "exact": e.Foundations()} {
 		if len(rs) != 1 || relErr(rs[0].Force[1], P) > roundOff || relErr(rs[0].Centre(), L/2) > roundOff {
 			t.Errorf("%s foundation reaction %+v, want %.6g N at x = %.6g m", name, rs, P, L/2)
 		}
@@ -107,7 +107,7 @@ func TestFreeBeamOnFoundationUniformLoad(t *testing.T) {
 					}
 				}
 			}
-			for name, rs := range map[string][]FoundationReaction{"FE": s.Foundations, "exact": e.Foundations(m)} {
+			for name, rs := range map[string][]FoundationReaction{"FE": s.Foundations, "exact": e.Foundations()} {
 				if relErr(rs[0].Force[1], -q*L) > 1e-9 || relErr(rs[0].Centre(), L/2) > 1e-9 {
 					t.Errorf("%s foundation reaction %+v, want %.6g N at x = %g m", name, rs[0], -q*L, L/2)
 				}
@@ -158,7 +158,7 @@ func TestPileWithSkinFriction(t *testing.T) {
 				}
 			}
 			roundOff := max(1e-9, 4*s.Condition*0x1p-52)
-			for name, rs := range map[string][]FoundationReaction{"FE": s.Foundations, "exact": e.Foundations(m)} {
+			for name, rs := range map[string][]FoundationReaction{"FE": s.Foundations, "exact": e.Foundations()} {
 				if relErr(rs[0].Force[0], -P) > roundOff {
 					t.Errorf("%s skin friction %.10g N, want %.10g", name, rs[0].Force[0], -P)
 				}
@@ -242,7 +242,7 @@ func TestPartialFoundationConverges(t *testing.T) {
 		}
 	}
 	var exactGround [2]float64
-	for i, f := range e.Foundations(m) {
+	for i, f := range e.Foundations() {
 		exactGround[i] = f.Force[1]
 	}
 	total := exactGround[0] + exactGround[1] + e.Reactions()[0].Force[1]

@@ -18,7 +18,8 @@ import (
 const CombinedCaution = "Combined results use the factors given in the model; Stave builds in no code's factors. Use the factors your local code gives; a qualified engineer must review the combinations."
 
 // CasesJSON are the keys `stave solve --json` adds for a model with load
-// cases, beside the summary of what it shows (docs/format.md, "Results").
+// cases, beside the results of what it shows (docs/json.md, "Load cases,
+// combinations and envelope").
 type CasesJSON struct {
 	Shown string `json:"shown"`
 	// SummaryOf names the case or combination the summary beside these
@@ -36,14 +37,7 @@ type CaseJSON struct {
 	TemperatureChange float64 `json:"temperature_change"` // K
 	Settlements       bool    `json:"settlements"`
 	BySpan            bool    `json:"by_span"`
-	SummaryJSON
-}
-
-// SummaryJSON is the part of a fem.Summary reported per case and per
-// combination.
-type SummaryJSON struct {
-	Reactions []fem.ReactionSummary `json:"reactions"`
-	Extremes  []fem.Extreme         `json:"extremes"`
+	*Results
 }
 
 // CombinationJSON is one combination, its factors and its results with
@@ -53,7 +47,7 @@ type CombinationJSON struct {
 	Kind    string       `json:"kind"`
 	Label   string       `json:"label,omitempty"`
 	Factors []FactorJSON `json:"factors"`
-	SummaryJSON
+	*Results
 }
 
 // FactorJSON is one case of a combination and its factor.
@@ -73,7 +67,8 @@ type EnvelopeJSON struct {
 
 // QuantityEnvelope is one quantity's largest and smallest value.
 type QuantityEnvelope struct {
-	Quantity fem.Quantity  `json:"quantity"`
+	Quantity fem.Quantity `json:"-"`
+	Name     string       `json:"quantity"` // as in the extremes, e.g. bending_moment
 	Unit     string        `json:"unit"`
 	Max      GoverningJSON `json:"max"`
 	Min      GoverningJSON `json:"min"`
@@ -128,7 +123,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 			return nil, fmt.Errorf("load case %q: %w", lc.Name, err)
 		}
 		out.Cases = append(out.Cases, CaseJSON{Name: lc.Name, SelfWeight: lc.SelfWeight, TemperatureChange: lc.TemperatureChange,
-			Settlements: lc.Settlements, BySpan: lc.BySpan, SummaryJSON: SummaryJSON{s.Reactions, s.Extremes}})
+			Settlements: lc.Settlements, BySpan: lc.BySpan, Results: resultsOf(s)})
 	}
 	for k, cb := range c.Combinations {
 		cj := CombinationJSON{Name: cb.Name, Kind: cb.Kind.String(), Label: cb.Label}
@@ -136,14 +131,14 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 			cj.Factors = append(cj.Factors, FactorJSON{m.LoadSetName(f.Case), f.Factor})
 		}
 		if k < len(c.Summaries) {
-			cj.SummaryJSON = SummaryJSON{c.Summaries[k].Reactions, c.Summaries[k].Extremes}
+			cj.Results = resultsOf(c.Summaries[k])
 		}
 		out.Combinations = append(out.Combinations, cj)
 	}
 	env := c.Envelope
 	out.Envelope = EnvelopeJSON{Caution: CombinedCaution, Spans: c.Solutions.Loads.Spans}
 	for _, q := range env.Quantities {
-		out.Envelope.Quantities = append(out.Envelope.Quantities, QuantityEnvelope{Quantity: q.Quantity, Unit: q.Quantity.Info().SI,
+		out.Envelope.Quantities = append(out.Envelope.Quantities, QuantityEnvelope{Quantity: q.Quantity, Name: jsonName(q.Quantity), Unit: q.Quantity.Info().SI,
 			Max: governingJSON(m, c, q.Max), Min: governingJSON(m, c, q.Min)})
 	}
 	for _, r := range env.Reactions {

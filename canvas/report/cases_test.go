@@ -49,7 +49,7 @@ func TestExportShows(t *testing.T) {
 	var outs []string
 	for _, s := range []analysis.Show{{Kind: analysis.ShowEnvelope}, {Kind: analysis.ShowCase, Index: 1}, {Kind: analysis.ShowCombination, Index: 2}} {
 		var b bytes.Buffer
-		if err := Export(context.Background(), &b, p, "svg", Options{Show: s}); err != nil {
+		if _, err := Export(context.Background(), &b, p, "svg", Options{Show: s}); err != nil {
 			t.Fatal(err)
 		}
 		outs = append(outs, b.String())

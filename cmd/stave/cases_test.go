@@ -15,10 +15,10 @@ type casesResult struct {
 	SummaryOf string `json:"summary_of"`
 	Cases     []struct {
 		Name      string
-		Reactions []struct{ Transverse float64 }
+		Reactions []struct{ Transverse struct{ Value float64 } }
 		Extremes  []struct {
 			Quantity string
-			Max, Min float64
+			Max, Min struct{ Value float64 }
 		}
 	}
 	Combinations []struct {
@@ -83,16 +83,16 @@ func TestSolveJSONTwoSpanCases(t *testing.T) {
 	} {
 		c := got.Cases[i]
 		for k, r := range c.Reactions {
-			if math.Abs(r.Transverse-want.reactions[k]) > 1e-9*W*L {
-				t.Errorf("%s: reaction %d %.9g N, want %.9g", c.Name, k+1, r.Transverse, want.reactions[k])
+			if math.Abs(r.Transverse.Value-want.reactions[k]) > 1e-9*W*L {
+				t.Errorf("%s: reaction %d %.9g N, want %.9g", c.Name, k+1, r.Transverse.Value, want.reactions[k])
 			}
 		}
 		m := c.Extremes[5] // bending moment
-		if m.Quantity != "BendingMoment" {
+		if m.Quantity != "bending_moment" {
 			t.Fatalf("extreme 6 is %s", m.Quantity)
 		}
-		if math.Abs(m.Min-want.support) > 2e-3*W*L*L/8 || math.Abs(m.Max-want.span) > 2e-3*W*L*L/8 {
-			t.Errorf("%s: moments %.6g and %.6g N·m, want %.6g and %.6g", c.Name, m.Min, m.Max, want.support, want.span)
+		if math.Abs(m.Min.Value-want.support) > 2e-3*W*L*L/8 || math.Abs(m.Max.Value-want.span) > 2e-3*W*L*L/8 {
+			t.Errorf("%s: moments %.6g and %.6g N·m, want %.6g and %.6g", c.Name, m.Min.Value, m.Max.Value, want.support, want.span)
 		}
 	}
 	// The envelope: the middle reaction largest with both spans loaded,

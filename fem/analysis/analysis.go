@@ -19,6 +19,7 @@ import (
 
 	"stave/fem"
 	"stave/fem/check"
+	"stave/fem/units"
 )
 
 // Request is one model to analyse.
@@ -52,6 +53,9 @@ type Analysis struct {
 	Cases *Cases
 	// Complete says Finish has run to its end.
 	Complete bool
+	// Units are the display units of the findings' messages (the checks'
+	// Options.Units; SI when they name none).
+	Units units.System
 	// summary is what Finish's walk gathered for Summary; shared by the
 	// copies of a, never changed.
 	summary *fem.Summary
@@ -64,7 +68,10 @@ func Solve(ctx context.Context, r Request) (Analysis, error) {
 	if err := ctx.Err(); err != nil {
 		return Analysis{}, err
 	}
-	a := Analysis{Model: r.Model, Nodes: r.Nodes}
+	a := Analysis{Model: r.Model, Nodes: r.Nodes, Units: r.Checks.Units}
+	if a.Units.Name == "" {
+		a.Units = units.SI
+	}
 	if len(r.Model.Segments) == 0 {
 		a.Err = errors.New("no member yet: drag along the drawing with the Member tool, or type a length")
 		return a, nil
@@ -149,9 +156,8 @@ func (a *Analysis) Problem() string {
 }
 
 // Summary is fem.Summarize of the solution against the exact one, as
-// Finish's walk gathered it (worked out here before Finish), with a warning
-// when the exact solution is missing; a must have a Solution. It is a copy:
-// the caller may change it.
+// Finish's walk gathered it (worked out here before Finish); a must have a
+// Solution. It is a copy: the caller may change it.
 func (a *Analysis) Summary() fem.Summary {
 	var sum fem.Summary
 	if a.summary == nil {
@@ -160,14 +166,11 @@ func (a *Analysis) Summary() fem.Summary {
 		sum = *a.summary
 		sum.Reactions = slices.Clone(sum.Reactions)
 		sum.Extremes = slices.Clone(sum.Extremes)
-		sum.Warnings = slices.Clone(sum.Warnings)
+		sum.Supports = slices.Clone(sum.Supports)
 		if e := sum.ExactError; e != nil {
 			norms := *e
 			sum.ExactError = &norms
 		}
-	}
-	if a.Exact == nil {
-		sum.Warnings = append(sum.Warnings, "the exact solution is not available for this model, so the error against it is not reported")
 	}
 	return sum
 }
