@@ -67,8 +67,8 @@ type EnvelopeJSON struct {
 
 // QuantityEnvelope is one quantity's largest and smallest value.
 type QuantityEnvelope struct {
-	Quantity fem.Quantity `json:"-"`
-	Name     string       `json:"quantity"` // as in the extremes, e.g. bending_moment
+	Quantity fem.Quantity  `json:"-"`
+	Name     string        `json:"quantity"` // as in the extremes, e.g. bending_moment
 	Unit     string        `json:"unit"`
 	Max      GoverningJSON `json:"max"`
 	Min      GoverningJSON `json:"min"`
