@@ -259,7 +259,7 @@ func CombineExact(exacts []*Exact, factors []float64) (*Exact, error) {
 		return nil, fmt.Errorf("fem: %d exact solutions for %d factors: give one factor per solution", len(exacts), len(factors))
 	}
 	first := exacts[0]
-	out := &Exact{model: first.model, keys: first.keys, stretches: make([]exactStretch, len(first.stretches)), reactions: make([]Reaction, len(first.reactions))}
+	out := &Exact{Condition: first.Condition, model: first.model, keys: first.keys, stretches: make([]exactStretch, len(first.stretches)), reactions: make([]Reaction, len(first.reactions))}
 	for j, s := range first.stretches {
 		o := &out.stretches[j]
 		*o = s

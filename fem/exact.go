@@ -16,6 +16,12 @@ import (
 // one small dense system per problem (bar, beam) whose size grows with the
 // number of stretches and supports, not with any mesh.
 type Exact struct {
+	// Condition bounds the round-off in the integration constants and the
+	// reactions as Solution.Condition does for the finite element answer:
+	// relative errors up to about Condition·ε are possible. It is the
+	// larger 1-norm condition estimate of the bar's and the beam's
+	// equations after equilibration. Warning says when it matters.
+	Condition float64
 	model     *Model    // the model solved (shared with its ExactStructure)
 	keys      []float64 // key points in increasing order: keys[0] = 0, last = L
 	stretches []exactStretch
@@ -183,6 +189,9 @@ type ExactStructure struct {
 	model    *Model
 	keys     []float64
 	problems []exactProblem
+	// condition is the larger condition estimate of the problems'
+	// equilibrated systems (Exact.Condition).
+	condition float64
 }
 
 // exactProblem is one problem's layout and factorized matrix.
@@ -211,6 +220,7 @@ func newExactStructure(p *Member) (*ExactStructure, error) {
 		if err := pr.factor.factorize(a); err != nil {
 			return nil, err
 		}
+		es.condition = max(es.condition, pr.factor.cond)
 		es.problems = append(es.problems, pr)
 	}
 	return es, nil
@@ -241,12 +251,77 @@ func (es *ExactStructure) Solve(l *Loads) (*Exact, error) {
 	if !e.finite() {
 		return nil, errNotFinite
 	}
+	e.staticReactions(points)
 	return e, nil
+}
+
+// staticReactions replaces, where a stretch is clamped at both ends, the
+// reactions of the rigid restraints solved for with the integration
+// constants by those statics gives from the actions on the most flexible
+// stretch between restraints (reactions.go), as the finite element answer
+// takes them; the springs keep theirs. A short, stiff stretch clamped at
+// both ends (two fixed supports a millimetre apart) has constants that meet
+// its end conditions only to the round-off of the whole system, magnified
+// by its stiffness in the reactions solved beside it. Its end actions come
+// instead from its ends' prescribed motions, as K·u − f of the element of
+// the same stretch, which is exact for exact end values (the Hermite and
+// the interdependent interpolation elements reproduce the exact end forces
+// under linear loads); every other stretch's from its own fields. points
+// are the key points' loads and restraints.
+func (e *Exact) staticReactions(points []keyPoint) {
+	n := len(e.keys)
+	disp, loads := make([][3]float64, n), make([][3]float64, n)
+	prescribed := make([][3]bool, n)
+	for k := range e.keys {
+		loads[k] = points[k].load
+		for _, r := range points[k].restraints {
+			if r.compliance == 0 {
+				disp[k][r.dof], prescribed[k][r.dof] = r.settlement, true
+			}
+		}
+	}
+	// clamped reports whether the problem of motion d is held rigidly at
+	// both ends of stretch j, so its end motions are known exactly.
+	clamped := func(j int, d Dof) bool {
+		a, b := prescribed[j], prescribed[j+1]
+		if d == Axial {
+			return a[Axial] && b[Axial]
+		}
+		return a[Transverse] && a[Rotation] && b[Transverse] && b[Rotation] && !points[j].hinge
+	}
+	someClamped := false
+	for j := range e.stretches {
+		someClamped = someClamped || clamped(j, Axial) || clamped(j, Transverse)
+	}
+	if !someClamped {
+		return
+	}
+	els := make([]elementData, len(e.stretches))
+	for j := range e.stretches {
+		s := &e.stretches[j]
+		els[j] = elementData{start: s.start, length: s.length, axialLoad: s.axialLoad, transverseLoad: s.load,
+			sectionData: sectionData{axialRigidity: s.bar.stiffness, flexuralRigidity: s.beam.stiffness, shear: s.shear,
+				thermalStrain: s.thermalStrain, thermalCurvature: -s.beam.offset / s.beam.stiffness}}
+		if !s.polynomial() {
+			els[j].ground = s.groundResultant()
+		}
+	}
+	element := elementActions(els, disp)
+	start := func(j int, d Dof) float64 {
+		s := &e.stretches[j]
+		if s.polynomial() && clamped(j, d) {
+			return element(j, d)
+		}
+		var f Fields
+		s.fields(0, &f)
+		return [3]float64{f.AxialForce, f.ShearForce, f.BendingMoment}[d]
+	}
+	staticReactions(e.model, e.keys, els, loads, e.reactions, start)
 }
 
 // blank is an Exact with the stretches of the loads l and no constants yet.
 func (es *ExactStructure) blank(l *Loads) *Exact {
-	e := &Exact{model: es.model, keys: es.keys, stretches: make([]exactStretch, len(es.keys)-1), reactions: make([]Reaction, len(es.model.Supports))}
+	e := &Exact{Condition: es.condition, model: es.model, keys: es.keys, stretches: make([]exactStretch, len(es.keys)-1), reactions: make([]Reaction, len(es.model.Supports))}
 	for j := range e.stretches {
 		e.stretches[j] = newStretch(es.model, l, j)
 	}

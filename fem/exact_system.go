@@ -63,6 +63,7 @@ const maxCondition = 1e13
 type exactFactor struct {
 	lu                 band.LU
 	rowScale, colScale []float64
+	cond               float64 // condition estimate of the equilibrated system
 }
 
 // factorize equilibrates a (in place) by alternating square-root scaling of
@@ -78,8 +79,9 @@ func (f *exactFactor) factorize(a *band.General) error {
 		}
 		return fmt.Errorf("the exact solution cannot be found: %v", err)
 	}
-	if c := f.lu.Cond(a); !(c < maxCondition) {
-		return errExactSingular(c)
+	f.cond = f.lu.Cond(a)
+	if !(f.cond < maxCondition) {
+		return errExactSingular(f.cond)
 	}
 	return nil
 }
@@ -97,6 +99,19 @@ func (f *exactFactor) solve(b []float64) ([]float64, error) {
 		b[j] *= f.colScale[j]
 	}
 	return b, nil
+}
+
+// Warning says how far the exact solution can be trusted when its
+// equations are ill-conditioned, or is "" when they are not: beyond
+// conditionLimit, relative errors of Condition·ε may show in the digits an
+// engineer reads, and the error of the finite element answer measured
+// against it may be the exact solution's own.
+func (e *Exact) Warning() string {
+	const eps = 0x1p-52
+	if e == nil || !(e.Condition > conditionLimit) {
+		return ""
+	}
+	return fmt.Sprintf("the exact solution's equations are ill-conditioned (estimated condition number %.2g after scaling): its values may carry relative errors up to %.0e, and the finite element error measured against it may be its own; supports, loads or changes of section very close together cause this", e.Condition, e.Condition*eps)
 }
 
 // errExactSingular says the exact solution's equations cannot be trusted.

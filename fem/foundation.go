@@ -275,11 +275,7 @@ func (g *groundBasis) decaying(k, upto int, t float64) [4]float64 {
 }
 
 // Foundations returns what each foundation carries in the exact solution,
-// in the order of Model.Foundations; nil without foundations. On a stretch on a foundation k·w = q −
-// EI·w⁗ and kₐ·u = p + EA·u″, so the foundation's resultant follows from
-// the loads and the section actions at the stretch's ends, in closed
-// form: −∫k·w dx = −∫q dx + (V(b) − V(a)), its moment about x = 0 −∫x·q dx
-// + [x·V − M] from a to b, and −∫kₐ·u dx = −∫p dx − (N(b) − N(a)).
+// in the order of Model.Foundations; nil without foundations.
 func (e *Exact) Foundations() []FoundationReaction {
 	if e == nil || len(e.model.Foundations) == 0 {
 		return nil
@@ -291,40 +287,52 @@ func (e *Exact) Foundations() []FoundationReaction {
 	}
 	for j := range e.stretches {
 		s := &e.stretches[j]
-		if s.bar.polynomial() && s.beam.polynomial() {
+		if s.polynomial() {
 			continue
 		}
-		a, b := s.start, s.start+s.length
-		fa, fb := e.At(a, Right), e.At(b, Left)
-		h := s.length
-		var axial, across, moment float64
-		if !s.bar.polynomial() {
-			p0, p1 := s.axialLoad[0], s.axialLoad[1]
-			axial = -h*(p0+p1)/2 - (fb.AxialForce - fa.AxialForce)
-		}
-		if !s.beam.polynomial() {
-			q0, q1 := s.load[0], s.load[1]
-			across = -h*(q0+q1)/2 + (fb.ShearForce - fa.ShearForce)
-			// ∫x·q dx over [a, b] for q linear from q0 to q1.
-			xq := h * (q0*(2*a+b) + q1*(a+2*b)) / 6
-			moment = -xq + (b*fb.ShearForce - fb.BendingMoment) - (a*fa.ShearForce - fa.BendingMoment)
-		}
-		k, ka := m.foundationAt(a + 0.5*h)
+		g, end, mid := s.groundResultant(), s.start+s.length, s.start+0.5*s.length
+		k, ka := m.foundationAt(mid)
 		for i, f := range m.Foundations {
-			if a+0.5*h <= f.Start || a+0.5*h >= f.End {
+			if mid <= f.Start || mid >= f.End {
 				continue
 			}
 			r := &out[i]
 			if ka > 0 {
-				r.Force[0] += axial * f.AxialModulus / ka
+				r.Force[0] += g[Axial] * f.AxialModulus / ka
 			}
 			if k > 0 {
-				r.Force[1] += across * f.Modulus / k
-				r.Moment += moment * f.Modulus / k
+				// ∫x·q dx = end·∫q dx − ∫(end − x)·q dx.
+				r.Force[1] += g[Transverse] * f.Modulus / k
+				r.Moment += (end*g[Transverse] - g[Rotation]) * f.Modulus / k
 			}
 		}
 	}
 	return out
+}
+
+// groundResultant is, for the exact solution on a stretch on a foundation,
+// what setGround is for an element: the resultant of the foundation's
+// forces along and across the stretch and the moment of the latter about
+// its end. On a foundation k·w = q − V′ and kₐ·u = p + N′ (V′ = EI·w⁗,
+// N′ = EA·u″), so they follow from the loads and the actions at the
+// stretch's ends in closed form: −∫kₐ·u dx = −∫p dx − (N(b) − N(a)),
+// −∫k·w dx = −∫q dx + V(b) − V(a), and −∫(b − x)·k·w dx = −∫(b − x)·q dx −
+// h·V(a) + M(b) − M(a) (by parts, M′ = V).
+func (s *exactStretch) groundResultant() [3]float64 {
+	var fa, fb Fields
+	s.fields(0, &fa)
+	s.fields(1, &fb)
+	h := s.length
+	var g [3]float64
+	if !s.bar.polynomial() {
+		g[Axial] = -h*(s.axialLoad[0]+s.axialLoad[1])/2 - (fb.AxialForce - fa.AxialForce)
+	}
+	if !s.beam.polynomial() {
+		q0, q1 := s.load[0], s.load[1]
+		g[Transverse] = -h*(q0+q1)/2 + fb.ShearForce - fa.ShearForce
+		g[Rotation] = -h*h*(2*q0+q1)/6 - h*fa.ShearForce + fb.BendingMoment - fa.BendingMoment
+	}
+	return g
 }
 
 // wave is the beam's pair of decaying functions at t as one complex

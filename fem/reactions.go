@@ -23,10 +23,17 @@ type stretchActions struct {
 // loads and spring forces, by Dof.
 type keyLoads [3]float64
 
-// staticReactions fills every support's reaction on the key-point mesh with
-// key nodes x, stretches els (with the point loads inside them), point loads
-// at the key points and key-point displacements disp.
-func staticReactions(m *Model, x []float64, els []elementData, pointLoads, disp [][3]float64, reactions []Reaction) {
+// startAction is the action of motion d (N, V or M) just inside the start
+// of stretch j, read off a solution: where the statics of the reactions
+// start from.
+type startAction func(j int, d Dof) float64
+
+// staticReactions fills the reactions of every rigid restraint on the
+// key-point mesh with key nodes x, stretches els (with the point loads
+// inside them and, on a foundation, its forces on them) and point loads at
+// the key points, taking the section actions where statics starts from
+// start. The springs' reactions must be in reactions already.
+func staticReactions(m *Model, x []float64, els []elementData, pointLoads [][3]float64, reactions []Reaction, start startAction) {
 	nk := len(x)
 	held := make([][3]bool, nk)
 	loads := make([]keyLoads, nk)
@@ -38,9 +45,7 @@ func staticReactions(m *Model, x []float64, els []elementData, pointLoads, disp 
 		for d := Axial; d <= Rotation; d++ {
 			switch {
 			case sup.Elastic(d):
-				f := -sup.Stiffness[d] * disp[k][d]
-				reactions[r].Force[d] = f
-				loads[k][d] += f
+				loads[k][d] += reactions[r].Force[d]
 			case sup.Kind.Restrains(d):
 				held[k][d] = true
 			}
@@ -54,7 +59,7 @@ func staticReactions(m *Model, x []float64, els []elementData, pointLoads, disp 
 			for hi < len(els) && !held[hi][d] {
 				hi++
 			}
-			spanActions(d, els, disp, loads, acts, lo, hi)
+			spanActions(d, els, loads, acts, lo, hi, start)
 			lo = hi
 		}
 	}
@@ -91,9 +96,10 @@ func (a *stretchActions) of(d Dof) *[2]float64 {
 }
 
 // spanActions sets the action of motion d on stretches lo..hi−1, which no
-// restraint of d separates: directly on the most flexible one, then by
-// statics outwards. Moments need the shears, so d = Rotation comes last.
-func spanActions(d Dof, els []elementData, disp [][3]float64, loads []keyLoads, acts []stretchActions, lo, hi int) {
+// restraint of d separates: read off the solution on the most flexible one
+// (start), then by statics outwards. Moments need the shears, so d =
+// Rotation comes last.
+func spanActions(d Dof, els []elementData, loads []keyLoads, acts []stretchActions, lo, hi int, start startAction) {
 	best, flex := lo, -1.0
 	for j := lo; j < hi; j++ {
 		e := &els[j]
@@ -105,18 +111,48 @@ func spanActions(d Dof, els []elementData, disp [][3]float64, loads []keyLoads, 
 			best, flex = j, f
 		}
 	}
-	e := &els[best]
-	if d == Axial {
-		k, f := e.barStiffness(LinearBar), e.barLoads(LinearBar)
-		u := [2]float64{disp[best][Axial], disp[best+1][Axial]}
-		acts[best].axial[0] = -(k[0][0]*u[0] + k[0][1]*u[1] - f[0])
-	} else {
+	acts[best].of(d)[0] = start(best, d)
+	carry(d, &els[best], &acts[best])
+	for j := best + 1; j < hi; j++ {
+		acts[j].of(d)[0] = acts[j-1].of(d)[1] + across(d, loads[j])
+		carry(d, &els[j], &acts[j])
+	}
+	for j := best - 1; j >= lo; j-- {
+		acts[j].of(d)[1] = acts[j+1].of(d)[0] - across(d, loads[j+1])
+		uncarry(d, &els[j], &acts[j])
+	}
+}
+
+// springReactions sets the reaction of every spring of m, −k·y, from the
+// displacements disp at the key points x.
+func springReactions(m *Model, x []float64, disp [][3]float64, reactions []Reaction) {
+	for r, sup := range m.Supports {
+		k := nearest(x, sup.X)
+		for d := Axial; d <= Rotation; d++ {
+			if sup.Elastic(d) {
+				reactions[r].Force[d] = -sup.Stiffness[d] * disp[k][d]
+			}
+		}
+	}
+}
+
+// elementActions is startAction for the finite element solution: the end
+// forces K·u − f of stretch j of els with key-point displacements disp (its
+// own start rotation where it starts at a hinge).
+func elementActions(els []elementData, disp [][3]float64) startAction {
+	return func(j int, d Dof) float64 {
+		e := &els[j]
+		if d == Axial {
+			k, f := e.barStiffness(LinearBar), e.barLoads(LinearBar)
+			u := [2]float64{disp[j][Axial], disp[j+1][Axial]}
+			return -(k[0][0]*u[0] + k[0][1]*u[1] - f[0])
+		}
 		k, f := e.beamStiffness(), e.beamLoads()
-		start := disp[best][Rotation]
+		start := disp[j][Rotation]
 		if e.released {
 			start = e.startRotation
 		}
-		u := [4]float64{disp[best][Transverse], start, disp[best+1][Transverse], disp[best+1][Rotation]}
+		u := [4]float64{disp[j][Transverse], start, disp[j+1][Transverse], disp[j+1][Rotation]}
 		row := 0 // V(start) = F_w(start)
 		scale := 1.0
 		if d == Rotation {
@@ -126,16 +162,7 @@ func spanActions(d Dof, els []elementData, disp [][3]float64, loads []keyLoads, 
 		for b, ub := range u {
 			v += k[row][b] * ub
 		}
-		acts[best].of(d)[0] = scale * v
-	}
-	carry(d, &els[best], &acts[best])
-	for j := best + 1; j < hi; j++ {
-		acts[j].of(d)[0] = acts[j-1].of(d)[1] + across(d, loads[j])
-		carry(d, &els[j], &acts[j])
-	}
-	for j := best - 1; j >= lo; j-- {
-		acts[j].of(d)[1] = acts[j+1].of(d)[0] - across(d, loads[j+1])
-		uncarry(d, &els[j], &acts[j])
+		return scale * v
 	}
 }
 

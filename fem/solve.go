@@ -236,7 +236,8 @@ func (st *Structure) Solve(l *Loads) (*Solution, error) {
 	for j := range stretches {
 		stretches[j].setGround(keyDisp[j], keyDisp[j+1])
 	}
-	staticReactions(m, st.keyX, stretches, keyPointLoads, keyDisp, s.Reactions)
+	springReactions(m, st.keyX, keyDisp, s.Reactions)
+	staticReactions(m, st.keyX, stretches, keyPointLoads, s.Reactions, elementActions(stretches, keyDisp))
 	s.Foundations = foundationReactions(m, stretches)
 	s.fields = make([]elementField, len(mesh.Elements))
 	energy, poison := refineAll(stretchRefiner{x: mesh.X, disp: s.Displacement, fields: s.fields, order: s.barOrder}, stretches, keys)

@@ -91,7 +91,7 @@ func Unmarshal(data []byte) (*Project, error) {
 func Validate(p *Project) error {
 	problems := append(check(p), checkTexts(p)...)
 	if data, err := Marshal(p); err == nil && len(data) > MaxFileSize {
-		problems = append(problems, Problem{Message: fmt.Sprintf("the file would be %s, more than the %s a project file may be; remove loads or load points, or shorten the notes", describeSize(int64(len(data))), describeSize(MaxFileSize))})
+		problems = append(problems, oversize(len(data)))
 	}
 	if len(problems) > 0 {
 		return &LoadError{Problems: problems}

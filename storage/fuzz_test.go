@@ -81,7 +81,7 @@ func FuzzHostileShapes(f *testing.F) {
 		var want string
 		switch {
 		case len(data) > MaxFileSize:
-			want = "more than the 2.0 MiB"
+			want = "more than the 8.0 MiB"
 		case depth+2 > maxDepth: // the top object and "view" hold magnification
 			want = fmt.Sprintf("nested more than %d deep", maxDepth)
 		case depth > 0:

@@ -61,7 +61,7 @@ func TestDecodeRefusesHostileFiles(t *testing.T) {
 		{"lists nested 100,000 deep", nested(100_000, false), []string{"line 1, column 65:", "nested more than 64 deep", "open a file saved by Stave"}},
 		{"objects nested 100,000 deep", nested(100_000, true), []string{"line 1, column 321:", "nested more than 64 deep"}},
 		{"one level too deep", nested(maxDepth+1, false), []string{"nested more than 64 deep"}},
-		{"larger than the limit", append([]byte(demo), bytes.Repeat([]byte(" "), MaxFileSize)...), []string{"more than the 2.0 MiB (2097152 bytes) a Stave project file may be", "open the file Stave saved, or its .bak backup"}},
+		{"larger than the limit", append([]byte(demo), bytes.Repeat([]byte(" "), MaxFileSize)...), []string{"more than the 8.0 MiB (8388608 bytes) a Stave project file may be", "open the file Stave saved, or its .bak backup"}},
 		{"UTF-16, little-endian, with a mark", utf16Text(demo, false, true), []string{"line 1, column 1: this file is UTF-16 text; save it as UTF-8"}},
 		{"UTF-16, big-endian, with a mark", utf16Text(demo, true, true), []string{"this file is UTF-16 text; save it as UTF-8"}},
 		{"UTF-16 without a mark", utf16Text(demo, false, false), []string{"this file is UTF-16 text; save it as UTF-8"}},
@@ -215,7 +215,7 @@ func TestValidateChecksTheFileSize(t *testing.T) {
 		t.Fatalf("the test project's file is %d bytes, not more than the limit", size)
 	}
 	err := Validate(p)
-	if err == nil || !strings.Contains(err.Error(), "more than the 2.0 MiB (2097152 bytes) a project file may be") {
+	if err == nil || !strings.Contains(err.Error(), "more than the 8.0 MiB (8388608 bytes) a project file may be") {
 		t.Errorf("Validate of a project too large to save gave %v", err)
 	}
 }
@@ -226,8 +226,8 @@ func TestLoadRefusesLargeFiles(t *testing.T) {
 	path := filepath.Join(t.TempDir(), "huge.json")
 	sparseFile(t, path, 200<<20)
 	files := []struct{ path, phrase string }{
-		{path, "the file is 200.0 MiB (209715200 bytes), more than the 2.0 MiB"},
-		{unsizedLargeFile(t), "the file is 2.0 MiB (2097153 bytes), more than the 2.0 MiB"},
+		{path, "the file is 200.0 MiB (209715200 bytes), more than the 8.0 MiB"},
+		{unsizedLargeFile(t), "the file is 8.0 MiB (8388609 bytes), more than the 8.0 MiB"},
 	}
 	for _, file := range files {
 		if file.path == "" {
@@ -276,11 +276,11 @@ func sparseFile(t *testing.T, path string, size int64) {
 func TestFindRecoveryRefusesLargeFiles(t *testing.T) {
 	tests := []struct {
 		name   string
-		make   func(path string)
+		make   func(t *testing.T, path string)
 		phrase string
 	}{
-		{"sparse", func(path string) { sparseFile(t, path, 200<<20) }, "the file is 200.0 MiB"},
-		{"of unknown size", func(path string) {
+		{"sparse", func(t *testing.T, path string) { sparseFile(t, path, 200<<20) }, "the file is 200.0 MiB"},
+		{"of unknown size", func(t *testing.T, path string) {
 			large := unsizedLargeFile(t)
 			if large == "" {
 				t.Skip("no file here that hides its size")
@@ -288,12 +288,12 @@ func TestFindRecoveryRefusesLargeFiles(t *testing.T) {
 			if err := os.Symlink(large, path); err != nil {
 				t.Fatal(err)
 			}
-		}, "the file is 2.0 MiB (2097153 bytes), more than"},
+		}, "the file is 8.0 MiB (8388609 bytes), more than"},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
 			dir := t.TempDir()
-			tt.make(RecoveryPath(dir))
+			tt.make(t, RecoveryPath(dir))
 			r, err := FindRecovery(dir)
 			if r != nil || err == nil || !strings.Contains(err.Error(), "cannot be recovered: "+tt.phrase) {
 				t.Errorf("FindRecovery gave %v, %v; want a refusal saying %q", r, err, tt.phrase)

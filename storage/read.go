@@ -8,10 +8,13 @@ import (
 	"os"
 )
 
-// MaxFileSize is the largest project file Stave reads, in bytes. A member's
-// file is a few kilobytes (testdata/demo.json is under 4 kB); the limit
-// keeps a stray large file from taking the memory of the machine.
-const MaxFileSize = 2 << 20
+// MaxFileSize is the largest project file Stave reads and writes, in bytes.
+// A member's file is a few kilobytes (testdata/demo.json is under 4 kB), a
+// measured load profile of 100,000 points about 5 MiB; the limit keeps a
+// stray large file from taking the memory of the machine (reading 8 MiB
+// takes about 100 MiB and under a second), and Save refuses a project
+// whose file would pass it, so Stave never writes what it will not read.
+const MaxFileSize = 8 << 20
 
 // sizeError refuses a file larger than MaxFileSize.
 type sizeError struct{ size int64 }
@@ -23,6 +26,12 @@ func (e sizeError) Error() string {
 // problem is the refusal of a project file this large.
 func (e sizeError) problem() Problem {
 	return Problem{Message: e.Error() + ", so it is not a Stave project or it is damaged; open the file Stave saved, or its .bak backup"}
+}
+
+// oversize is the refusal to write a project whose file would be size
+// bytes, more than MaxFileSize.
+func oversize(size int) Problem {
+	return Problem{Message: fmt.Sprintf("the file would be %s, more than the %s a project file may be; remove loads or load points, or shorten the notes", describeSize(int64(size)), describeSize(MaxFileSize))}
 }
 
 func describeSize(n int64) string {

@@ -48,6 +48,9 @@ func Save(path string, p *Project) error {
 	if err != nil {
 		return err
 	}
+	if len(data) > MaxFileSize {
+		return &SaveError{Problems: []Problem{oversize(len(data))}}
+	}
 	return replaceFile(path, data, true)
 }
 

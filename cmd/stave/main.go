@@ -50,6 +50,9 @@ func (e modelError) Unwrap() error { return e.err }
 type checkFailed struct {
 	path     string
 	failures []string
+	// quiet leaves the message out where the output itself says so (the
+	// results document's check_failed and warnings).
+	quiet bool
 }
 
 func (e checkFailed) Error() string {
@@ -69,7 +72,7 @@ func failures(path string, fs []analysis.Finding) error {
 			out = append(out, fmt.Sprintf("[%s] %s — %s", f.Code, f.Status, f.Name))
 		}
 	}
-	return checkFailed{path, out}
+	return checkFailed{path: path, failures: out}
 }
 
 // helpShown says a command printed its flags because --help asked (exit status 0).
@@ -104,6 +107,9 @@ func run(args []string, stdout, stderr io.Writer) int {
 	err := dispatch(args, stdout)
 	if err == nil || errors.Is(err, helpShown) {
 		return 0
+	}
+	if cf, ok := err.(checkFailed); ok && cf.quiet {
+		return 3
 	}
 	fmt.Fprintln(stderr, "stave:", err)
 	var ue usageError

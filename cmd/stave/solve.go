@@ -83,7 +83,12 @@ func solveCommand(args []string, stdout io.Writer) error {
 	if a.Err != nil {
 		return modelError{fmt.Errorf("%s: %w", path, a.Err)}
 	}
-	return failures(path, src.Findings)
+	err = failures(path, src.Findings)
+	if cf, ok := err.(checkFailed); ok && *asJSON {
+		cf.quiet = true // the document says so: check_failed and its warnings
+		return cf
+	}
+	return err
 }
 
 // newFlagSet makes a flag set that reports misuse as an error, not an exit.

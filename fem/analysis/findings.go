@@ -114,6 +114,9 @@ func (a *Analysis) Findings() []Finding {
 	for _, msg := range a.Solution.Warnings {
 		out = append(out, finding(CodeCondition, "solver", msg))
 	}
+	if msg := a.Exact.Warning(); msg != "" {
+		out = append(out, finding(CodeCondition, "exact solution", msg))
+	}
 	if a.Exact == nil && a.ExactErr != nil {
 		out = append(out, finding(CodeNoExact, "no exact solution: values are the finite element ones",
 			fmt.Sprintf("There is no exact solution of this model (%v), so every value reported is the finite element one, labelled FE, and its error is not measured: a peak between nodes may be missed. Refine the mesh and compare to be sure.", a.ExactErr)))
