@@ -45,22 +45,21 @@ const (
 	arrowLength   = 44
 )
 
-// rect is a text or symbol box used to keep labels from overlapping.
-type rect struct{ x0, y0, x1, y1 float32 }
-
-func (r rect) overlaps(o rect) bool {
-	return r.x0 < o.x1 && o.x0 < r.x1 && r.y0 < o.y1 && o.y0 < r.y1
-}
-
 // builder accumulates a scene.
 type builder struct {
-	in       Input
-	v        View
-	s        *Scene
-	u        units.System
-	occupied []rect
-	// texts are the labels, added to the scene after every other item.
-	texts []Item
+	in Input
+	v  View
+	s  *Scene
+	u  units.System
+	// boxes are the places labels must keep off (see place); curves the
+	// lines they keep clear of where they can.
+	boxes  []box
+	curves [][]Point
+	// band bounds the labels placed without bounds of their own (see label.within).
+	band rect
+	// texts are the labels, added to the scene after every other item,
+	// over their light backings and leader lines.
+	texts, backings, leaders []Item
 	// clear are the boxes of labels that sit where the deflected shape may
 	// pass (the segment names on the member): the curve breaks around them
 	// instead of running through the glyphs.
@@ -71,15 +70,23 @@ type builder struct {
 }
 
 // Build lays out the drawing of in for the view v.
-func Build(in Input, v View) *Scene {
+func Build(in Input, v View) *Scene { return build(in, v).scene() }
+
+// build lays out the drawing in a builder, which keeps what was placed
+// where (its boxes) beside the scene.
+func build(in Input, v View) *builder {
 	b := &builder{in: in, v: v, u: in.Units, s: &Scene{Width: v.Width, Height: v.Height}}
 	if b.u.Name == "" {
 		b.u = units.SI
 	}
 	if in.Model == nil {
-		return b.s
+		return b
 	}
-	lay := layout(in.Overlays, v, reactionRows(in))
+	o := in.Overlays
+	if len(in.Model.Segments) == 0 {
+		o = storage.Overlays{} // a new sketch: no member, nothing to plot yet
+	}
+	lay := layout(o, v, reactionRows(in))
 	b.s.SketchBottom = lay.sketchBottom
 	b.s.MemberY = lay.memberY
 	if in.Highlight != [2]float64{} {
@@ -89,13 +96,14 @@ func Build(in Input, v View) *Scene {
 		}
 		b.rectangle(x0, 0, x1, v.Height, highlightColour)
 	}
-	// One walk over the elements reads the deflection and every strip.
+	// One walk over the elements reads the deflection and every strip,
+	// with the gaps to the exact solution when it is shown.
 	if in.Solution != nil {
 		qs := []quantity{deflectionQuantity}
 		for _, st := range lay.strips {
 			qs = append(qs, sampled(st.diagram.quantity))
 		}
-		cs := in.Cache.curves(in.Solution, v, qs)
+		cs := in.Cache.curves(in.Solution, b.exact(), v, qs)
 		b.deflection, b.feCurves = cs[0], cs[1:]
 	}
 	b.sketch(lay)
@@ -103,7 +111,7 @@ func Build(in Input, v View) *Scene {
 	if in.Hovering {
 		b.hoverLine(b.sx(in.HoverX), lay.top, v.Height)
 	}
-	return b.scene()
+	return b
 }
 
 // hoverLine draws the dashed line under the mouse from y0 to y1, broken
@@ -127,10 +135,19 @@ func (b *builder) hoverLine(x, y0, y1 float32) {
 	}
 }
 
-// scene returns the items built with the texts on top of every other item.
+// exact is the exact solution when the drawing shows it, else nil.
+func (b *builder) exact() *fem.Exact {
+	if b.in.Overlays.ExactBand {
+		return b.in.Exact
+	}
+	return nil
+}
+
+// scene returns the items built with the labels on top of every other
+// item, each over its backing.
 func (b *builder) scene() *Scene {
-	b.s.Items = append(b.s.Items, b.texts...)
-	b.texts = nil
+	b.s.Items = slices.Concat(b.s.Items, b.leaders, b.backings, b.texts)
+	b.texts, b.backings, b.leaders = nil, nil, nil
 	return b.s
 }
 
@@ -285,38 +302,6 @@ func (b *builder) text(s string, x, y float32, size float32, ax, ay float32, c c
 	b.texts = append(b.texts, Item{Kind: Text, Text: s, At: Point{left, top}, Size: size, Bold: bold, Stroke: c, Width: w})
 	return rect{left, top, left + w, top + h}
 }
-
-// label places s at the first candidate anchor whose box does not overlap an
-// earlier label; if none fits it is left out unless force is set.
-func (b *builder) label(s string, size float32, c color.NRGBA, bold, force bool, cands ...labelSpot) (rect, bool) {
-	w, h := textWidth(s, size, bold), TextHeight(size)
-	for i, cand := range cands {
-		if cand.x < -20 || cand.x > b.v.Width+20 {
-			continue // the thing labelled is off screen
-		}
-		left := max(2, min(b.v.Width-w-2, cand.x-cand.ax*w))
-		r := rect{left, cand.y - cand.ay*h, left + w, cand.y - cand.ay*h + h}
-		padded := rect{r.x0 - 3, r.y0 - 1, r.x1 + 3, r.y1 + 1}
-		free := true
-		for _, o := range b.occupied {
-			if padded.overlaps(o) {
-				free = false
-				break
-			}
-		}
-		if free || (force && i == len(cands)-1) {
-			b.occupied = append(b.occupied, r)
-			// A light backing keeps a label readable over hatching and arrows.
-			b.rectangle(r.x0-1, r.y0+1, r.x1+1, r.y1-1, rgba(0xff, 0xff, 0xff, 0xc8))
-			return b.text(s, cand.x, cand.y, size, cand.ax, cand.ay, c, bold), true
-		}
-	}
-	return rect{}, false
-}
-
-type labelSpot struct{ x, y, ax, ay float32 }
-
-func (b *builder) occupy(r rect) { b.occupied = append(b.occupied, r) }
 
 func (b *builder) handle(ref Ref, radius float32, pts ...Point) {
 	b.s.Handles = append(b.s.Handles, Handle{Ref: ref, Points: pts, Radius: radius})

@@ -46,4 +46,5 @@ type Mark struct {
 	X      float64 // where the check points, m
 	Index  int     // the caller's check index, returned as Ref.Index of its handle
 	Severe bool    // a failed check (drawn in the problem colour) rather than a warning
+	Name   string  // what the mark stands for, written beside it ("caution: Stress, segment 1")
 }

@@ -11,19 +11,20 @@ import (
 // quantity is one result quantity as the sampler reads it. How it varies
 // inside an element, which decides what must be read at the element's
 // ends, is asked of the solution's element formulations
-// (fem.Solution.Varies).
+// (fem.Solution.Varies). Every quantity's extremes are taken in closed form
+// as well as its samples, so a drawing labels them where the results table
+// reports them, whatever its width.
 type quantity struct {
 	fem.Quantity
-	// peaks asks for the quantity's extremes in closed form as well as its
-	// samples: the deformed shape labels its peak where the deflection's
-	// cubic has zero slope, as the results table reports it.
-	peaks bool
+	// gap asks for the largest gap to the exact solution, in closed form,
+	// when the sampler is given one (the diagrams mark it).
+	gap bool
 }
 
 // sampled is q as the sampler reads it for a diagram.
-func sampled(q fem.Quantity) quantity { return quantity{Quantity: q} }
+func sampled(q fem.Quantity) quantity { return quantity{Quantity: q, gap: true} }
 
-var deflectionQuantity = quantity{Quantity: fem.QDeflection, peaks: true}
+var deflectionQuantity = quantity{Quantity: fem.QDeflection}
 
 // extreme is a value and where it occurs.
 type extreme struct{ x, value float64 }
@@ -44,8 +45,13 @@ type curve struct {
 	lo, hi extreme // over all samples
 	n      int
 	// peakLo and peakHi are the extremes in closed form over the elements
-	// read, for a quantity that asks for them (quantity.peaks).
+	// read.
 	peakLo, peakHi extreme
+	// gap is the largest |FE − exact| over the elements read, in closed
+	// form, for a quantity that asks for it (quantity.gap): zero without
+	// the exact solution. gapFE and gapExact are the two values there.
+	gap             extreme
+	gapFE, gapExact float64
 }
 
 // reset empties c for view v, keeping its memory when it is large enough.
@@ -68,6 +74,23 @@ func (c *curve) takePeaks(lo, hi fem.Point) {
 	}
 	if hi.Value > c.peakHi.value {
 		c.peakHi = extreme{hi.X, hi.Value}
+	}
+}
+
+// tie is the relative margin within which two values count as equal: a
+// later element's gap must beat the largest so far by more to take its
+// place, so equal gaps to round-off (a uniform load's at every node) go to
+// the first along the member, on the screen and in every export alike.
+const tie = 1e-9
+
+// beatsGap reports whether a gap of size g takes the place of the largest so far.
+func (c *curve) beatsGap(g float64) bool { return g > c.gap.value*(1+tie) }
+
+// takeGap takes the gap g of one element, with the two solutions' values
+// there, where it beats the largest so far.
+func (c *curve) takeGap(g extreme, fe, exact float64) {
+	if c.beatsGap(g.value) {
+		c.gap, c.gapFE, c.gapExact = g, fe, exact
 	}
 }
 
@@ -121,6 +144,7 @@ func (c *curve) finish() {
 // merge appends the samples of o, which all follow those of c, column by column.
 func (c *curve) merge(o *curve) {
 	c.takePeaks(fem.Point{X: o.peakLo.x, Value: o.peakLo.value}, fem.Point{X: o.peakHi.x, Value: o.peakHi.value})
+	c.takeGap(o.gap, o.gapFE, o.gapExact)
 	for k := range o.cols {
 		col, next := &c.cols[k], &o.cols[k]
 		switch {
@@ -144,7 +168,7 @@ func (c *curve) merge(o *curve) {
 // peakAbs is the sample of largest magnitude.
 func (c *curve) peakAbs() extreme { return largerOf(c.n, c.lo, c.hi) }
 
-// peak is the closed-form extreme of largest magnitude (quantity.peaks).
+// peak is the closed-form extreme of largest magnitude.
 func (c *curve) peak() extreme { return largerOf(c.n, c.peakLo, c.peakHi) }
 
 // largerOf is lo or hi, whichever is larger in magnitude; zero without samples.
@@ -196,8 +220,10 @@ const maxSamplesPerElement = 48
 // values, so the work is about one evaluation per visible element (the end
 // follows from the start, see variation) and the result is bounded by the
 // width. Many visible elements are read in two halves at once, one per core,
-// the second into the curves of half (one per quantity).
-func sampleCurves(s *fem.Solution, v View, qs []quantity, cs, half []*curve) {
+// the second into the curves of half (one per quantity). With the exact
+// solution e (nil for none) each element's largest gap to it is taken in
+// the same walk, for the quantities that ask for it.
+func sampleCurves(s *fem.Solution, e *fem.Exact, v View, qs []quantity, cs, half []*curve) {
 	for _, c := range cs {
 		c.reset(v)
 	}
@@ -206,7 +232,7 @@ func sampleCurves(s *fem.Solution, v View, qs []quantity, cs, half []*curve) {
 	first := sort.Search(len(els), func(k int) bool { return els[k].End >= lo })
 	end := first + sort.Search(len(els)-first, func(k int) bool { return els[first+k].Start > hi })
 	if end-first < parallelElements {
-		sampleElements(s, v, qs, cs, first, end, end)
+		sampleElements(s, e, v, qs, cs, first, end, end)
 	} else {
 		mid := (first + end) / 2
 		second := half[:len(cs)]
@@ -215,10 +241,10 @@ func sampleCurves(s *fem.Solution, v View, qs []quantity, cs, half []*curve) {
 		}
 		done := make(chan struct{})
 		go func() {
-			sampleElements(s, v, qs, second, mid, end, end)
+			sampleElements(s, e, v, qs, second, mid, end, end)
 			close(done)
 		}()
-		sampleElements(s, v, qs, cs, first, mid, end)
+		sampleElements(s, e, v, qs, cs, first, mid, end)
 		<-done
 		for i, c := range cs {
 			c.merge(second[i])
@@ -234,9 +260,10 @@ func sampleCurves(s *fem.Solution, v View, qs []quantity, cs, half []*curve) {
 // saves (a few microseconds against about 0.1 µs per element).
 const parallelElements = 4096
 
-// sampleElements adds the samples of elements from ≤ i < to to cs; the
-// visible elements end before element visible.
-func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, to, visible int) {
+// sampleElements adds the samples of elements from ≤ i < to to cs, their
+// extremes and, with e, their gaps to it; the visible elements end before
+// element visible.
+func sampleElements(s *fem.Solution, e *fem.Exact, v View, qs []quantity, cs []*curve, from, to, visible int) {
 	// The quantities are read by pointer: a copy of each, strings and all,
 	// for every sample cost more than reading the sample.
 	add := func(x float64, f *fem.Fields) {
@@ -254,11 +281,18 @@ func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, t
 	}
 	// The fields of the samples, kept in one place: passed by pointer to the
 	// quantities' readers they would otherwise move to the heap one by one.
-	f := new(fem.Fields)
-	for el := range s.Elements(nil, from, to) {
+	f, g := new(fem.Fields), new(fem.Fields)
+	for el := range s.Elements(e, from, to) {
 		for i, q := range qs {
-			if q.peaks {
-				cs[i].takePeaks(el.FE.Range(q.Quantity))
+			cs[i].takePeaks(el.FE.Range(q.Quantity))
+			if !q.gap || !el.HasExact {
+				continue
+			}
+			if gap, _ := el.Gap(q.Quantity); cs[i].beatsGap(gap.Value) {
+				xi := (gap.X - el.Start) / (el.End - el.Start)
+				el.FE.At(xi, f)
+				el.Exact.At(xi, g)
+				cs[i].takeGap(extreme{gap.X, gap.Value}, q.Of(f), q.Of(g))
 			}
 		}
 		h := el.End - el.Start
@@ -292,21 +326,19 @@ func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, t
 }
 
 // exactCurves reads the exact solution once per pixel column and on both
-// sides of every key point, and measures the gap to the finite element
-// solution (when s is not nil) at the same places.
-func exactCurves(e *fem.Exact, s *fem.Solution, m *fem.Model, v View, qs []quantity, c *Cache) (cs []*curve, gaps []extreme) {
+// sides of every key point.
+func exactCurves(e *fem.Exact, m *fem.Model, v View, qs []quantity, c *Cache) []*curve {
 	var memory []*curve
 	if c != nil {
-		memory = c.exact
-		defer func() { c.exact = memory }()
+		memory = c.exactMem
+		defer func() { c.exactMem = memory }()
 	}
-	cs = grow(&memory, len(qs))
+	cs := grow(&memory, len(qs))
 	for _, cv := range cs {
 		cv.reset(v)
 	}
-	gaps = make([]extreme, len(qs))
 	l := m.Length()
-	f, g := new(fem.Fields), new(fem.Fields) // see sampleElements
+	f := new(fem.Fields) // see sampleElements
 	add := func(x float64, side fem.Side) {
 		// Beyond the ends there is no other side to read.
 		if x <= 0 {
@@ -315,17 +347,8 @@ func exactCurves(e *fem.Exact, s *fem.Solution, m *fem.Model, v View, qs []quant
 			side = fem.Left
 		}
 		*f = e.At(x, side)
-		if s != nil {
-			*g = s.At(x, side)
-		}
 		for i, q := range qs {
-			ev := q.Of(f)
-			cs[i].add(x, ev)
-			if s != nil {
-				if d := q.Of(g) - ev; math.Abs(d) > math.Abs(gaps[i].value) {
-					gaps[i] = extreme{x, d}
-				}
-			}
+			cs[i].add(x, q.Of(f))
 		}
 	}
 	x0, x1 := max(0, v.ToModelX(0)), min(l, v.ToModelX(v.Width))
@@ -344,7 +367,51 @@ func exactCurves(e *fem.Exact, s *fem.Solution, m *fem.Model, v View, qs []quant
 	for _, c := range cs {
 		c.finish()
 	}
-	return cs, gaps
+	return cs
+}
+
+// exactExtremes are the smallest and largest exact values of each of qs in
+// closed form, over the stretches between key points that reach into the
+// view: a stretch's every field is one polynomial (fem.Exact.Intervals).
+// Of extremes equal to round-off (a symmetric member's two spans) the one
+// nearest the finite element extreme of the same kind in near is taken, so
+// a label pairs the two where they belong together.
+func exactExtremes(e *fem.Exact, v View, qs []quantity, near []*curve) (lo, hi []extreme) {
+	lo, hi = make([]extreme, len(qs)), make([]extreme, len(qs))
+	ivs := e.Intervals()
+	x0, x1 := v.ToModelX(0), v.ToModelX(v.Width)
+	for i, q := range qs {
+		var los, his []extreme
+		for _, iv := range ivs {
+			if iv.X(1) < x0 || iv.X(0) > x1 {
+				continue
+			}
+			l, h := iv.Range(q.Quantity)
+			los, his = append(los, extreme{l.X, -l.Value}), append(his, extreme{h.X, h.Value})
+		}
+		lo[i], hi[i] = nearestLargest(los, near[i].peakLo.x), nearestLargest(his, near[i].peakHi.x)
+		lo[i].value = -lo[i].value
+	}
+	return lo, hi
+}
+
+// nearestLargest is the largest of es, the one nearest x of those equal to
+// it to round-off (within tie); the zero extreme for an empty list.
+func nearestLargest(es []extreme, x float64) extreme {
+	if len(es) == 0 {
+		return extreme{}
+	}
+	best := es[0].value
+	for _, e := range es[1:] {
+		best = max(best, e.value)
+	}
+	out := es[0]
+	for _, e := range es {
+		if e.value >= best-tie*math.Abs(best) && (out.value < best-tie*math.Abs(best) || math.Abs(e.x-x) < math.Abs(out.x-x)) {
+			out = e
+		}
+	}
+	return out
 }
 
 // Cache keeps the sampled finite element curves between builds of the same
@@ -354,12 +421,13 @@ func exactCurves(e *fem.Exact, s *fem.Solution, m *fem.Model, v View, qs []quant
 // area its own Cache and do not share one between goroutines.
 type Cache struct {
 	solution  *fem.Solution
+	exact     *fem.Exact // the exact solution the gaps were taken against
 	x0, scale float64
 	width     float32
 	drawn     []fem.Quantity
 	sampled   []*curve
 	half      []*curve // memory for the second half of a two-goroutine read
-	exact     []*curve // memory for the exact curves, read anew each build
+	exactMem  []*curve // memory for the exact curves, read anew each build
 }
 
 // grow returns the first n of *cs, adding empty curves as needed.
@@ -370,20 +438,21 @@ func grow(cs *[]*curve, n int) []*curve {
 	return (*cs)[:n]
 }
 
-// curves returns the sampled curves of qs, reading the solution only when the
-// solution, the view's x transform or the quantities changed.
-func (c *Cache) curves(s *fem.Solution, v View, qs []quantity) []*curve {
+// curves returns the sampled curves of qs with their gaps to e (nil for
+// none), reading the solution only when the solutions, the view's x
+// transform or the quantities changed.
+func (c *Cache) curves(s *fem.Solution, e *fem.Exact, v View, qs []quantity) []*curve {
 	drawn := make([]fem.Quantity, len(qs))
 	for i, q := range qs {
 		drawn[i] = q.Quantity
 	}
 	if c == nil {
 		c = &Cache{}
-	} else if c.solution == s && c.x0 == v.X0 && c.scale == v.Scale && c.width == v.Width && slices.Equal(c.drawn, drawn) {
+	} else if c.solution == s && c.exact == e && c.x0 == v.X0 && c.scale == v.Scale && c.width == v.Width && slices.Equal(c.drawn, drawn) {
 		return c.sampled[:len(qs)]
 	}
 	cs := grow(&c.sampled, len(qs))
-	sampleCurves(s, v, qs, cs, grow(&c.half, len(qs)))
-	c.solution, c.x0, c.scale, c.width, c.drawn = s, v.X0, v.Scale, v.Width, drawn
+	sampleCurves(s, e, v, qs, cs, grow(&c.half, len(qs)))
+	c.solution, c.exact, c.x0, c.scale, c.width, c.drawn = s, e, v.X0, v.Scale, v.Width, drawn
 	return cs
 }

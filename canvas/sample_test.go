@@ -94,7 +94,7 @@ func TestSampleCurvesMatchReadingEveryEnd(t *testing.T) {
 			v.Fit(m)
 			v.Zoom(c.zoom, 500)
 			var got, half []*curve
-			sampleCurves(s, v, qs, grow(&got, len(qs)), grow(&half, len(qs)))
+			sampleCurves(s, nil, v, qs, grow(&got, len(qs)), grow(&half, len(qs)))
 			want := sampledByAt(s, v, qs)
 			for i, q := range qs {
 				g, w := got[i], want[i]

@@ -191,7 +191,7 @@ func marks(fs []analysis.Finding) []canvas.Mark {
 	var out []canvas.Mark
 	for i, f := range fs {
 		if f.Marked {
-			out = append(out, canvas.Mark{X: f.At, Index: i, Severe: f.Severity == analysis.Fail})
+			out = append(out, canvas.Mark{X: f.At, Index: i, Severe: f.Severity == analysis.Fail, Name: f.Status + ": " + f.Name})
 		}
 	}
 	return out
