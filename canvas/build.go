@@ -331,21 +331,24 @@ func (b *builder) arrow(tail, tip Point, c color.NRGBA, width, head float32) {
 // format writes an SI value in the chosen unit system.
 func (b *builder) format(q units.Kind, v float64) string { return b.u.Format(q, v) }
 
-// wrap breaks s into lines no wider than w pixels.
+// wrap breaks s into lines no wider than w pixels. A line's width is taken
+// as the sum of its words' and spaces' widths, each measured once: the
+// kerning between a space and a word is far below a pixel.
 func wrap(s string, size float32, bold bool, w float32) []string {
 	var lines []string
-	cur := ""
+	cur, curW := "", float32(0)
+	space := textWidth(" ", size, bold)
 	for _, word := range strings.Fields(s) {
-		try := word
-		if cur != "" {
-			try = cur + " " + word
-		}
-		if cur != "" && textWidth(try, size, bold) > w {
+		ww := textWidth(word, size, bold)
+		if cur != "" && curW+space+ww > w {
 			lines = append(lines, cur)
-			cur = word
+			cur, curW = "", 0
+		}
+		if cur != "" {
+			cur, curW = cur+" "+word, curW+space+ww
 			continue
 		}
-		cur = try
+		cur, curW = word, ww
 	}
 	if cur != "" {
 		lines = append(lines, cur)

@@ -174,7 +174,11 @@ func (b *builder) crossesCurve(r rect) bool {
 		// The curves run left to right: start at the first point past r's left edge.
 		k := sort.Search(len(pts), func(i int) bool { return pts[i].X >= r.x0 })
 		for i := max(k-1, 0); i+1 < len(pts) && pts[i].X <= r.x1; i++ {
-			if len(insideSpans(pts[i], pts[i+1], box, 0)) > 0 {
+			p, q := pts[i], pts[i+1]
+			if max(p.Y, q.Y) < r.y0 || min(p.Y, q.Y) > r.y1 {
+				continue // wholly above or below: most of a curve's segments
+			}
+			if len(insideSpans(p, q, box, 0)) > 0 {
 				return true
 			}
 		}
