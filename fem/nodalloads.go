@@ -14,7 +14,11 @@ type NodalLoads struct {
 	Elements  []ElementLoad // per element of Mesh.Elements
 	// Resultant is that of the line loads and the self-weight: the force
 	// along x and across (N) and the moment about x = 0 (N·m, counter-clockwise).
-	Resultant [3]float64
+	// Consistent and Lumped are the same sums of the nodal loads each way
+	// (the middle nodes of quadratic bars included): the consistent ones
+	// equal the resultant, the lumped ones its forces but not, in general,
+	// its moment.
+	Resultant, Consistent, Lumped [3]float64
 }
 
 // NodeLoad is what the line loads put on one node.
@@ -95,5 +99,17 @@ func NodalLoadsOn(m *Model, mesh Mesh) (*NodalLoads, error) {
 			n.Lumped[Transverse] += e.Lumped[1]
 		}
 	}
+	for _, n := range out.Nodes {
+		out.Consistent = add3(out.Consistent, n.X, n.Consistent)
+		out.Lumped = add3(out.Lumped, n.X, n.Lumped)
+	}
+	for _, e := range out.Elements {
+		out.Consistent = add3(out.Consistent, (e.Start+e.End)/2, [3]float64{e.BarMiddle, 0, 0})
+	}
 	return out, nil
+}
+
+// add3 adds the loads f at x to the sums r: forces, and the moment about x = 0.
+func add3(r [3]float64, x float64, f [3]float64) [3]float64 {
+	return [3]float64{r[0] + f[Axial], r[1] + f[Transverse], r[2] + f[Rotation] + x*f[Transverse]}
 }

@@ -108,6 +108,10 @@ func TestNodalLoadsClosedForms(t *testing.T) {
 			if !near(lumpedMoment, c.lumpedMoment, scale) {
 				t.Errorf("lumped loads have moment %g about x = 0, want %g", lumpedMoment, c.lumpedMoment)
 			}
+			if got, want := [2][3]float64{nl.Consistent, nl.Lumped}, [2][3]float64{{0, c.force, c.moment}, {0, c.force, c.lumpedMoment}}; !near(got[0][1], want[0][1], scale) ||
+				!near(got[0][2], want[0][2], scale) || !near(got[1][1], want[1][1], scale) || !near(got[1][2], want[1][2], scale) {
+				t.Errorf("sums (consistent, lumped) %v, want %v", got, want)
+			}
 		})
 	}
 }
@@ -143,7 +147,7 @@ func TestNodalLoadsSelfWeightOnBars(t *testing.T) {
 		for _, nd := range nl.Nodes {
 			sum += nd.Consistent[fem.Axial]
 		}
-		if !near(sum, weight, weight) || !near(nl.Resultant[fem.Axial], weight, weight) {
+		if !near(sum, weight, weight) || !near(nl.Resultant[fem.Axial], weight, weight) || !near(nl.Consistent[fem.Axial], weight, weight) {
 			t.Errorf("%s: nodal forces sum to %g, resultant %g, the weight is %g", nl.Bar, sum, nl.Resultant[fem.Axial], weight)
 		}
 	}
