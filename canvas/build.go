@@ -86,7 +86,7 @@ func build(in Input, v View) *builder {
 	if len(in.Model.Segments) == 0 {
 		o = storage.Overlays{} // a new sketch: no member, nothing to plot yet
 	}
-	lay := layout(o, v, reactionRows(in))
+	lay := layout(o, v, reactionRows(in), in.NodalLoads != nil && len(in.Model.Segments) > 0)
 	b.s.SketchBottom = lay.sketchBottom
 	b.s.MemberY = lay.memberY
 	if in.Highlight != [2]float64{} {
@@ -107,6 +107,9 @@ func build(in Input, v View) *builder {
 		b.deflection, b.feCurves = cs[0], cs[1:]
 	}
 	b.sketch(lay)
+	if lay.nodal != nil {
+		b.nodalStrip(*lay.nodal)
+	}
 	b.diagrams(lay)
 	if in.Hovering {
 		b.hoverLine(b.sx(in.HoverX), lay.top, v.Height)
@@ -233,6 +236,7 @@ func insideSpans(p, q Point, boxes []rect, pad float32) [][2]float32 {
 type layoutBands struct {
 	top, sketchBottom, memberY float32
 	strips                     []stripPlace
+	nodal                      *stripPlace // the nodal loads' strip, when shown
 }
 
 type stripPlace struct {
@@ -240,27 +244,37 @@ type stripPlace struct {
 	top, bottom float32
 }
 
-func layout(l storage.Overlays, v View, rows int) layoutBands {
+// layout places the sketch band and the strips: the nodal loads' first
+// when nodal, then each diagram l switches on.
+func layout(l storage.Overlays, v View, rows int, nodal bool) layoutBands {
 	var on []diagram
 	for _, d := range diagramsList {
 		if d.enabled(l) {
 			on = append(on, d)
 		}
 	}
+	n := len(on)
+	if nodal {
+		n++
+	}
 	top := v.PanY
 	sketch := v.Height
-	if len(on) > 0 {
+	if n > 0 {
 		sketch = max(230, 0.38*v.Height)
-		if v.Height-sketch < float32(len(on))*90 {
-			sketch = max(200, v.Height-float32(len(on))*90)
+		if v.Height-sketch < float32(n)*90 {
+			sketch = max(200, v.Height-float32(n)*90)
 		}
 	}
 	lay := layoutBands{top: top, sketchBottom: top + sketch}
 	// Below the member: support symbols, rows of reactions and two dimension lines.
 	lay.memberY = top + max(sketch*0.5, sketch-belowMember(rows)-40)
-	if len(on) > 0 {
-		stripH := max(90, (v.Height-sketch)/float32(len(on)))
+	if n > 0 {
+		stripH := max(90, (v.Height-sketch)/float32(n))
 		y := lay.sketchBottom
+		if nodal {
+			lay.nodal = &stripPlace{top: y, bottom: y + stripH}
+			y += stripH
+		}
 		for _, d := range on {
 			lay.strips = append(lay.strips, stripPlace{diagram: d, top: y, bottom: y + stripH})
 			y += stripH

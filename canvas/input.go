@@ -37,6 +37,11 @@ type Input struct {
 	// Marks are places the checks point at, drawn as small markers along
 	// the foot of the sketch with CheckMark handles.
 	Marks []Mark
+	// NodalLoads, when not nil, adds a strip under the sketch with the
+	// nodal loads of the solution's mesh, consistent beside lumped, whose
+	// elements can be pointed at (Element handles); the selected element's
+	// span is shaded.
+	NodalLoads *fem.NodalLoads
 	// Cache, when not nil, keeps sampled results between builds (see Cache).
 	Cache *Cache
 }

@@ -22,8 +22,8 @@ type shippedCase struct {
 }
 
 // shippedCases are the models of testdata, each with the overlays its file
-// saves and with every overlay on, and a marked check at mid-length so the
-// marks' labels are placed too.
+// saves, with every overlay on and with the nodal loads' strip, and a
+// marked check at mid-length so the marks' labels are placed too.
 func shippedCases(t *testing.T) []shippedCase {
 	t.Helper()
 	files, err := filepath.Glob("../testdata/*.json")
@@ -49,8 +49,13 @@ func shippedCases(t *testing.T) []shippedCase {
 			Marks: []Mark{{X: m.Length() / 2, Name: "caution: a check placed for the test"}}}
 		all := in
 		all.Overlays = storage.Overlays{DeformedShape: true, AxialForce: true, ShearForce: true, BendingMoment: true, Stress: true, Nodes: true, ExactBand: true}
+		nodal := in
+		if nodal.NodalLoads, err = fem.NodalLoadsOn(m, s.Mesh); err != nil {
+			t.Fatalf("%s: %v", f, err)
+		}
 		name := strings.TrimSuffix(filepath.Base(f), ".json")
-		out = append(out, shippedCase{name + ", saved overlays", in}, shippedCase{name + ", every overlay", all})
+		out = append(out, shippedCase{name + ", saved overlays", in}, shippedCase{name + ", every overlay", all},
+			shippedCase{name + ", nodal loads", nodal})
 	}
 	return out
 }
