@@ -60,15 +60,10 @@ func (b *builder) legendRow(items []legendItem, x0, y, x1 float32) float32 {
 }
 
 // paragraph places lines from x0 down, the last one ending at bottom, and
-// returns the top of the first. A line with no room is left out.
+// returns the top of the first; nothing when they have no room.
 func (b *builder) paragraph(lines []string, x0, bottom, size float32, c color.NRGBA) float32 {
-	h := TextHeight(size)
-	top := bottom - h*float32(len(lines))
-	for i, ln := range lines {
-		l := text1(ln, size, c, false, labelSpot{x0, top + float32(i)*h, 0, 0})
-		l.plain, l.optional = true, true
-		b.place(l)
-	}
+	top := bottom - TextHeight(size)*float32(len(lines))
+	b.place(label{lines: lines, size: size, colour: c, at: Point{x0, top}, spots: []labelSpot{{x0, top, 0, 0}}, plain: true, optional: true})
 	return top
 }
 

@@ -188,8 +188,15 @@ func (b *builder) elementHandles(y, half float32) {
 	if last-first > int(b.v.Width/minNodeSpacing) {
 		return
 	}
+	// Each handle is a capsule inside its element's rectangle: across a wide
+	// element, up and down a narrow one.
 	for i := first; i < last; i++ {
 		x0, x1 := b.sx(els[i].Start), b.sx(els[i].End)
-		b.handle(Ref{Kind: Element, Index: i}, half, Point{x0 + 1, y}, Point{x1 - 1, y})
+		mid, r := (x0+x1)/2, (x1-x0)/2-1
+		if r >= half {
+			b.handle(Ref{Kind: Element, Index: i}, half, Point{x0 + 1 + half, y}, Point{x1 - 1 - half, y})
+		} else {
+			b.handle(Ref{Kind: Element, Index: i}, max(r, 1), Point{mid, y - half + r}, Point{mid, y + half - r})
+		}
 	}
 }

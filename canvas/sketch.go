@@ -24,6 +24,11 @@ func (b *builder) sketch(lay layoutBands) {
 	title := text1("Member, supports and loads", titleSize, inkColour, true, labelSpot{8, lay.top + 6, 0, 0})
 	title.plain = true
 	b.place(title)
+	if len(m.Segments) == 0 { // a new sketch: what to do first
+		b.place(text1("No member yet: drag along the drawing with the Member tool, or type a length under Properties.",
+			labelSize, faintColour, false, labelSpot{b.v.Width / 2, lay.memberY, 0.5, 0.5}))
+		return
+	}
 	// What must be read comes first, so the labels placed later avoid it.
 	if b.in.Unreliable {
 		b.place(text1("UNRELIABLE RESULTS: read the warnings", labelSize, problemColour, true, labelSpot{b.v.Width - 8, lay.top + 26, 1, 0}))
@@ -575,11 +580,8 @@ func (b *builder) problem(lay layoutBands) (box func()) {
 	}
 	cx := b.v.Width / 2
 	r := rect{cx - wmax/2 - 10, y - 4, cx + wmax/2 + 10, y + h*float32(len(lines)) + 4}
-	for k, ln := range lines {
-		l := text1(ln, problemSize, problemColour, true, labelSpot{cx, y + h*float32(k), 0.5, 0})
-		l.plain = true
-		b.place(l)
-	}
+	b.place(label{lines: lines, size: problemSize, colour: problemColour, bold: true, at: Point{cx, y},
+		spots: []labelSpot{{cx, y, 0.5, 0}}, plain: true})
 	// The box's margins keep labels off; its lines are placed already.
 	b.symbol(rect{r.x0, r.y0, r.x1, y})
 	b.symbol(rect{r.x0, r.y1 - 4, r.x1, r.y1})

@@ -10,6 +10,7 @@ package fem
 type NodalLoads struct {
 	// Bar and Beam name the element formulations: "linear bar", "Hermite beam".
 	Bar, Beam string
+	BarOrder  ElementOrder  // of the bar elements
 	Nodes     []NodeLoad    // per node of Mesh.X
 	Elements  []ElementLoad // per element of Mesh.Elements
 	// Resultant is that of the line loads and the self-weight: the force
@@ -73,7 +74,7 @@ func NodalLoadsOn(m *Model, mesh Mesh) (*NodalLoads, error) {
 	if order == 0 {
 		order = LinearBar
 	}
-	out := &NodalLoads{Bar: bar.Name(), Beam: beam.Name(), Resultant: l.Resultant(),
+	out := &NodalLoads{Bar: bar.Name(), Beam: beam.Name(), BarOrder: order, Resultant: l.Resultant(),
 		Nodes: make([]NodeLoad, len(mesh.X)), Elements: make([]ElementLoad, len(els))}
 	for i, x := range mesh.X {
 		out.Nodes[i].X = x
