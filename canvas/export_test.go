@@ -103,6 +103,10 @@ func TestSheet(t *testing.T) {
 			t.Errorf("the sheet has no line %q", want)
 		}
 	}
+	// 8.36e-5 m⁴ is 83.60 × 10⁶ mm⁴: the power of ten with its ×.
+	if want := "I 83.60 × 10⁶ mm⁴"; !slices.ContainsFunc(lines, func(s string) bool { return strings.Contains(s, want) }) {
+		t.Errorf("the sheet's model table does not say %q", want)
+	}
 	if want := extremeLabel(in.Input); !slices.ContainsFunc(lines, func(s string) bool { return strings.HasPrefix(s, "FE ") && strings.Contains(s, want) }) {
 		t.Errorf("the sheet's drawing has no label saying the finite element bending moment reaches %q", want)
 	}
