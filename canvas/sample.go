@@ -373,45 +373,42 @@ func exactCurves(e *fem.Exact, m *fem.Model, v View, qs []quantity, c *Cache) []
 // exactExtremes are the smallest and largest exact values of each of qs in
 // closed form, over the stretches between key points that reach into the
 // view: a stretch's every field is one polynomial (fem.Exact.Intervals).
-// Of extremes equal to round-off (a symmetric member's two spans) the one
-// nearest the finite element extreme of the same kind in near is taken, so
-// a label pairs the two where they belong together.
+// Where the exact solution reaches an extreme also at the place of the
+// finite element extreme of the same kind in near, to round-off (the two
+// ends of a symmetric span, say), that place is taken, so that a label
+// pairs the two where they belong together.
 func exactExtremes(e *fem.Exact, v View, qs []quantity, near []*curve) (lo, hi []extreme) {
 	lo, hi = make([]extreme, len(qs)), make([]extreme, len(qs))
 	ivs := e.Intervals()
 	x0, x1 := v.ToModelX(0), v.ToModelX(v.Width)
 	for i, q := range qs {
-		var los, his []extreme
+		lo[i], hi[i] = extreme{value: math.Inf(1)}, extreme{value: math.Inf(-1)}
 		for _, iv := range ivs {
 			if iv.X(1) < x0 || iv.X(0) > x1 {
 				continue
 			}
 			l, h := iv.Range(q.Quantity)
-			los, his = append(los, extreme{l.X, -l.Value}), append(his, extreme{h.X, h.Value})
+			if l.Value < lo[i].value {
+				lo[i] = extreme{l.X, l.Value}
+			}
+			if h.Value > hi[i].value {
+				hi[i] = extreme{h.X, h.Value}
+			}
 		}
-		lo[i], hi[i] = nearestLargest(los, near[i].peakLo.x), nearestLargest(his, near[i].peakHi.x)
-		lo[i].value = -lo[i].value
+		size := max(math.Abs(lo[i].value), math.Abs(hi[i].value))
+		for _, p := range [2]struct {
+			ex *extreme
+			fe extreme
+		}{{&lo[i], near[i].peakLo}, {&hi[i], near[i].peakHi}} {
+			for _, side := range [2]fem.Side{fem.Left, fem.Right} {
+				f := e.At(p.fe.x, side)
+				if math.Abs(q.Of(&f)-p.ex.value) <= tie*size {
+					p.ex.x = p.fe.x
+				}
+			}
+		}
 	}
 	return lo, hi
-}
-
-// nearestLargest is the largest of es, the one nearest x of those equal to
-// it to round-off (within tie); the zero extreme for an empty list.
-func nearestLargest(es []extreme, x float64) extreme {
-	if len(es) == 0 {
-		return extreme{}
-	}
-	best := es[0].value
-	for _, e := range es[1:] {
-		best = max(best, e.value)
-	}
-	out := es[0]
-	for _, e := range es {
-		if e.value >= best-tie*math.Abs(best) && (out.value < best-tie*math.Abs(best) || math.Abs(e.x-x) < math.Abs(out.x-x)) {
-			out = e
-		}
-	}
-	return out
 }
 
 // Cache keeps the sampled finite element curves between builds of the same

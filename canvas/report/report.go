@@ -38,6 +38,8 @@ var Products = []Product{
 	{"sheet-pdf", "pdf", "calculation sheet as PDF"},
 	{"sheet-png", "png", "calculation sheet as PNG"},
 	{"csv", "csv", "results table (CSV)"},
+	{"multiples-png", "png", "small multiples, 1 to 8 elements per stretch, as PNG"},
+	{"multiples-pdf", "pdf", "small multiples, 1 to 8 elements per stretch, as PDF"},
 }
 
 // ProductExt returns the file extension of the product name, or false for
@@ -225,6 +227,8 @@ func Write(w io.Writer, src Source, product string, opts Options) error {
 			Notes:  canvas.SheetNotes{Project: n.Project, Mark: n.Member, Engineer: n.Engineer, Date: n.Date, Version: Version},
 			Checks: analysis.Flagged(src.Findings),
 		})
+	case "multiples-png", "multiples-pdf":
+		return writeMultiples(context.Background(), w, src, strings.TrimPrefix(product, "multiples-"), opts)
 	case "csv":
 		if in.Solution == nil {
 			return fmt.Errorf("there are no results to tabulate: %s", in.Problem)

@@ -4,7 +4,7 @@
 // file it opens that file. The subcommands work without a display:
 //
 //	stave solve [--json] [--units SI|US] FILE
-//	stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet] [--dpi N] [--points N] [--units SI|US]
+//	stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet | --multiples] [--elements N] [--dpi N] [--points N] [--units SI|US]
 //	stave converge [--json] [--max N] FILE
 //	stave bench [--json]
 //	stave version
@@ -40,8 +40,8 @@ func (e modelError) Unwrap() error { return e.err }
 const usage = `usage:
   stave [FILE]                         open the window (on the demo model without FILE)
   stave solve [--json] [--units SI|US] FILE
-  stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet] [--dpi N]
-               [--points N] [--units SI|US]
+  stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet | --multiples]
+               [--elements N] [--dpi N] [--points N] [--units SI|US]
   stave converge [--json] [--max N] FILE
   stave bench [--json]
   stave version
