@@ -8,6 +8,7 @@ import (
 	"stave/canvas"
 	"stave/fem"
 	"stave/fem/analysis"
+	"stave/fem/study"
 )
 
 // multiplesPerStretch are the meshes of the small multiples: so many
@@ -23,7 +24,7 @@ func writeMultiples(ctx context.Context, w io.Writer, src Source, format string,
 	keys := fem.KeyPoints(&p.Model)
 	var ms []canvas.Multiple
 	for _, n := range multiplesPerStretch {
-		r := Request(p, perStretch(keys, n))
+		r := Request(p, study.Subdivide(keys, n))
 		r.Checks.Units = src.Units
 		a, err := analysis.Run(ctx, r)
 		if err != nil {
@@ -46,18 +47,4 @@ func perStretchWords(n int) string {
 		return "1 element per stretch"
 	}
 	return fmt.Sprintf("%d elements per stretch", n)
-}
-
-// perStretch divides each stretch between neighbouring keys into n equal
-// elements: the nodes, keys included.
-func perStretch(keys []float64, n int) []float64 {
-	nodes := []float64{keys[0]}
-	for j := 1; j < len(keys); j++ {
-		a, b := keys[j-1], keys[j]
-		for k := 1; k < n; k++ {
-			nodes = append(nodes, a+(b-a)*float64(k)/float64(n))
-		}
-		nodes = append(nodes, b)
-	}
-	return nodes
 }
