@@ -24,7 +24,6 @@ var (
 	selectedColour  = rgb(0xe0, 0x85, 0x00)
 	problemColour   = rgb(0xc0, 0x1c, 0x1c)
 	exactColour     = rgb(0x10, 0x10, 0x10)
-	gapColour       = rgba(0xd0, 0x1e, 0x6a, 0x70)
 	highlightColour = rgba(0xff, 0xc4, 0x2e, 0x50)
 	hoverColour     = rgb(0x40, 0x40, 0x40)
 	white           = rgb(0xff, 0xff, 0xff)
@@ -64,9 +63,11 @@ type builder struct {
 	// pass (the segment names on the member): the curve breaks around them
 	// instead of running through the glyphs.
 	clear []rect
-	// Finite element curves: the deflection, and one per strip in layout order.
+	// Finite element curves: the deflection, and one per strip in layout
+	// order, with each strip's largest gap to the exact solution when shown.
 	deflection *curve
 	feCurves   []*curve
+	gaps       []gap
 }
 
 // Build lays out the drawing of in for the view v.
@@ -96,15 +97,19 @@ func build(in Input, v View) *builder {
 		}
 		b.rectangle(x0, 0, x1, v.Height, highlightColour)
 	}
-	// One walk over the elements reads the deflection and every strip,
-	// with the gaps to the exact solution when it is shown.
+	// One walk over the visible elements reads the deflection and every
+	// strip; one over them all with the exact solution, when it is shown,
+	// finds each strip's largest gap.
 	if in.Solution != nil {
-		qs := []quantity{deflectionQuantity}
+		qs := []fem.Quantity{fem.QDeflection}
 		for _, st := range lay.strips {
-			qs = append(qs, sampled(st.diagram.quantity))
+			qs = append(qs, st.diagram.quantity)
 		}
-		cs := in.Cache.curves(in.Solution, b.exact(), v, qs)
+		cs := in.Cache.curves(in.Solution, v, qs)
 		b.deflection, b.feCurves = cs[0], cs[1:]
+		if e := b.exact(); e != nil && len(lay.strips) > 0 {
+			b.gaps = in.Cache.gaps(in.Solution, e, qs[1:])
+		}
 	}
 	b.sketch(lay)
 	if lay.nodal != nil {

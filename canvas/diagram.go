@@ -67,9 +67,9 @@ func (b *builder) diagrams(lay layoutBands) {
 	if len(lay.strips) == 0 {
 		return
 	}
-	qs := make([]quantity, len(lay.strips))
+	qs := make([]fem.Quantity, len(lay.strips))
 	for i, st := range lay.strips {
-		qs[i] = sampled(st.diagram.quantity)
+		qs[i] = st.diagram.quantity
 	}
 	// The exact extremes go beside the finite element ones whenever the
 	// exact solution is known; its curve and the gap only when shown.
@@ -89,6 +89,9 @@ func (b *builder) diagrams(lay layoutBands) {
 		if ex != nil {
 			sd.ex = ex[i]
 		}
+		if b.gaps != nil {
+			sd.gap = &b.gaps[i]
+		}
 		if exLo != nil {
 			sd.exLo, sd.exHi, sd.exact = exLo[i], exHi[i], true
 		}
@@ -103,6 +106,7 @@ type stripData struct {
 	fe, ex     *curve
 	exLo, exHi extreme
 	exact      bool // exLo and exHi are known
+	gap        *gap // the largest gap, when the exact curve is shown
 }
 
 // strip draws one diagram: its legend, the element boundaries, the finite
@@ -310,23 +314,23 @@ var gapInk = rgb(0xa0, 0x10, 0x50)
 // exact one, with a bar between the two, and returns its label; false when
 // they agree to round-off.
 func (b *builder) largestGap(sd stripData, toY func(float64) float32) (label, bool) {
-	fe := sd.fe
-	if fe == nil || sd.ex == nil || !sd.exact {
+	fe, g := sd.fe, sd.gap
+	if fe == nil || g == nil || !sd.exact {
 		return label{}, false
 	}
 	size := max(math.Abs(fe.peakLo.value), math.Abs(fe.peakHi.value), math.Abs(sd.exLo.value), math.Abs(sd.exHi.value))
-	if fe.gap.value <= 1e-9*size {
+	if g.at.value <= tie*size {
 		return label{}, false
 	}
-	x := b.sx(fe.gap.x)
-	y0, y1 := toY(fe.gapFE), toY(fe.gapExact)
+	x := b.sx(g.at.x)
+	y0, y1 := toY(g.fe), toY(g.exact)
 	b.line(gapInk, 1.5, Point{x, y0}, Point{x, y1})
 	for _, y := range []float32{y0, y1} {
 		b.line(gapInk, 1.5, Point{x - 3, y}, Point{x + 3, y})
 	}
 	b.boxes = append(b.boxes, box{rect{x - 3, min(y0, y1) - 1, x + 3, max(y0, y1) + 1}, markerBox})
 	unit := sd.place.diagram.quantity.Info().Unit
-	s := fmt.Sprintf("largest gap %s at %s", b.format(unit, fe.gap.value), b.format(units.Position, fe.gap.x))
+	s := fmt.Sprintf("largest gap %s at %s", b.format(unit, g.at.value), b.format(units.Position, g.at.x))
 	at := Point{x, max(y0, y1)}
 	return label{lines: []string{s}, size: smallSize, colour: gapInk, at: at,
 		spots: append(besideSpots(at, false), besideSpots(Point{x, min(y0, y1)}, true)...)}, true

@@ -60,7 +60,7 @@ func (b *builder) gapWords() string {
 		return "not solved"
 	case b.in.Exact == nil:
 		return "no exact solution to compare with"
-	case len(b.feCurves) == 0:
+	case len(b.gaps) == 0:
 		return "no diagram shown"
 	}
 	var parts []string
@@ -69,7 +69,7 @@ func (b *builder) gapWords() string {
 		if !d.enabled(b.in.Overlays) {
 			continue
 		}
-		g := b.feCurves[i].gap
+		g := b.gaps[i].at
 		i++
 		parts = append(parts, fmt.Sprintf("%s %s at %s", quantityWords(d.quantity), b.format(d.quantity.Info().Unit, g.value), b.format(units.Position, g.x)))
 	}

@@ -8,24 +8,6 @@ import (
 	"stave/fem"
 )
 
-// quantity is one result quantity as the sampler reads it. How it varies
-// inside an element, which decides what must be read at the element's
-// ends, is asked of the solution's element formulations
-// (fem.Solution.Varies). Every quantity's extremes are taken in closed form
-// as well as its samples, so a drawing labels them where the results table
-// reports them, whatever its width.
-type quantity struct {
-	fem.Quantity
-	// gap asks for the largest gap to the exact solution, in closed form,
-	// when the sampler is given one (the diagrams mark it).
-	gap bool
-}
-
-// sampled is q as the sampler reads it for a diagram.
-func sampled(q fem.Quantity) quantity { return quantity{Quantity: q, gap: true} }
-
-var deflectionQuantity = quantity{Quantity: fem.QDeflection}
-
 // extreme is a value and where it occurs.
 type extreme struct{ x, value float64 }
 
@@ -45,13 +27,9 @@ type curve struct {
 	lo, hi extreme // over all samples
 	n      int
 	// peakLo and peakHi are the extremes in closed form over the elements
-	// read.
+	// read, so a drawing labels them where the results table reports them,
+	// whatever its width.
 	peakLo, peakHi extreme
-	// gap is the largest |FE − exact| over the elements read, in closed
-	// form, for a quantity that asks for it (quantity.gap): zero without
-	// the exact solution. gapFE and gapExact are the two values there.
-	gap             extreme
-	gapFE, gapExact float64
 }
 
 // reset empties c for view v, keeping its memory when it is large enough.
@@ -74,23 +52,6 @@ func (c *curve) takePeaks(lo, hi fem.Point) {
 	}
 	if hi.Value > c.peakHi.value {
 		c.peakHi = extreme{hi.X, hi.Value}
-	}
-}
-
-// tie is the relative margin within which two values count as equal: a
-// later element's gap must beat the largest so far by more to take its
-// place, so equal gaps to round-off (a uniform load's at every node) go to
-// the first along the member, on the screen and in every export alike.
-const tie = 1e-9
-
-// beatsGap reports whether a gap of size g takes the place of the largest so far.
-func (c *curve) beatsGap(g float64) bool { return g > c.gap.value*(1+tie) }
-
-// takeGap takes the gap g of one element, with the two solutions' values
-// there, where it beats the largest so far.
-func (c *curve) takeGap(g extreme, fe, exact float64) {
-	if c.beatsGap(g.value) {
-		c.gap, c.gapFE, c.gapExact = g, fe, exact
 	}
 }
 
@@ -144,7 +105,6 @@ func (c *curve) finish() {
 // merge appends the samples of o, which all follow those of c, column by column.
 func (c *curve) merge(o *curve) {
 	c.takePeaks(fem.Point{X: o.peakLo.x, Value: o.peakLo.value}, fem.Point{X: o.peakHi.x, Value: o.peakHi.value})
-	c.takeGap(o.gap, o.gapFE, o.gapExact)
 	for k := range o.cols {
 		col, next := &c.cols[k], &o.cols[k]
 		switch {
@@ -220,10 +180,8 @@ const maxSamplesPerElement = 48
 // values, so the work is about one evaluation per visible element (the end
 // follows from the start, see variation) and the result is bounded by the
 // width. Many visible elements are read in two halves at once, one per core,
-// the second into the curves of half (one per quantity). With the exact
-// solution e (nil for none) each element's largest gap to it is taken in
-// the same walk, for the quantities that ask for it.
-func sampleCurves(s *fem.Solution, e *fem.Exact, v View, qs []quantity, cs, half []*curve) {
+// the second into the curves of half (one per quantity).
+func sampleCurves(s *fem.Solution, v View, qs []fem.Quantity, cs, half []*curve) {
 	for _, c := range cs {
 		c.reset(v)
 	}
@@ -232,7 +190,7 @@ func sampleCurves(s *fem.Solution, e *fem.Exact, v View, qs []quantity, cs, half
 	first := sort.Search(len(els), func(k int) bool { return els[k].End >= lo })
 	end := first + sort.Search(len(els)-first, func(k int) bool { return els[first+k].Start > hi })
 	if end-first < parallelElements {
-		sampleElements(s, e, v, qs, cs, first, end, end)
+		sampleElements(s, v, qs, cs, first, end, end)
 	} else {
 		mid := (first + end) / 2
 		second := half[:len(cs)]
@@ -241,10 +199,10 @@ func sampleCurves(s *fem.Solution, e *fem.Exact, v View, qs []quantity, cs, half
 		}
 		done := make(chan struct{})
 		go func() {
-			sampleElements(s, e, v, qs, second, mid, end, end)
+			sampleElements(s, v, qs, second, mid, end, end)
 			close(done)
 		}()
-		sampleElements(s, e, v, qs, cs, first, mid, end)
+		sampleElements(s, v, qs, cs, first, mid, end)
 		<-done
 		for i, c := range cs {
 			c.merge(second[i])
@@ -260,12 +218,9 @@ func sampleCurves(s *fem.Solution, e *fem.Exact, v View, qs []quantity, cs, half
 // saves (a few microseconds against about 0.1 µs per element).
 const parallelElements = 4096
 
-// sampleElements adds the samples of elements from ≤ i < to to cs, their
-// extremes and, with e, their gaps to it; the visible elements end before
-// element visible.
-func sampleElements(s *fem.Solution, e *fem.Exact, v View, qs []quantity, cs []*curve, from, to, visible int) {
-	// The quantities are read by pointer: a copy of each, strings and all,
-	// for every sample cost more than reading the sample.
+// sampleElements adds the samples of elements from ≤ i < to to cs, and
+// their extremes; the visible elements end before element visible.
+func sampleElements(s *fem.Solution, v View, qs []fem.Quantity, cs []*curve, from, to, visible int) {
 	add := func(x float64, f *fem.Fields) {
 		k := cs[0].column(x)
 		for i := range qs {
@@ -276,24 +231,15 @@ func sampleElements(s *fem.Solution, e *fem.Exact, v View, qs []quantity, cs []*
 	// the next element's start repeats, nor below a pixel for a constant one.
 	nodal, constant := make([]bool, len(qs)), make([]bool, len(qs))
 	for i, q := range qs {
-		vary := s.Varies(q.Quantity)
+		vary := s.Varies(q)
 		nodal[i], constant[i] = vary.Nodal, vary.Degree == 0
 	}
 	// The fields of the samples, kept in one place: passed by pointer to the
 	// quantities' readers they would otherwise move to the heap one by one.
-	f, g := new(fem.Fields), new(fem.Fields)
-	for el := range s.Elements(e, from, to) {
+	f := new(fem.Fields)
+	for el := range s.Elements(nil, from, to) {
 		for i, q := range qs {
-			cs[i].takePeaks(el.FE.Range(q.Quantity))
-			if !q.gap || !el.HasExact {
-				continue
-			}
-			if gap, _ := el.Gap(q.Quantity); cs[i].beatsGap(gap.Value) {
-				xi := (gap.X - el.Start) / (el.End - el.Start)
-				el.FE.At(xi, f)
-				el.Exact.At(xi, g)
-				cs[i].takeGap(extreme{gap.X, gap.Value}, q.Of(f), q.Of(g))
-			}
+			cs[i].takePeaks(el.FE.Range(q))
 		}
 		h := el.End - el.Start
 		inner := int(min(maxSamplesPerElement, h*v.Scale/3))
@@ -327,7 +273,7 @@ func sampleElements(s *fem.Solution, e *fem.Exact, v View, qs []quantity, cs []*
 
 // exactCurves reads the exact solution once per pixel column and on both
 // sides of every key point.
-func exactCurves(e *fem.Exact, m *fem.Model, v View, qs []quantity, c *Cache) []*curve {
+func exactCurves(e *fem.Exact, m *fem.Model, v View, qs []fem.Quantity, c *Cache) []*curve {
 	var memory []*curve
 	if c != nil {
 		memory = c.exactMem
@@ -377,7 +323,7 @@ func exactCurves(e *fem.Exact, m *fem.Model, v View, qs []quantity, c *Cache) []
 // finite element extreme of the same kind in near, to round-off (the two
 // ends of a symmetric span, say), that place is taken, so that a label
 // pairs the two where they belong together.
-func exactExtremes(e *fem.Exact, v View, qs []quantity, near []*curve) (lo, hi []extreme) {
+func exactExtremes(e *fem.Exact, v View, qs []fem.Quantity, near []*curve) (lo, hi []extreme) {
 	lo, hi = make([]extreme, len(qs)), make([]extreme, len(qs))
 	ivs := e.Intervals()
 	x0, x1 := v.ToModelX(0), v.ToModelX(v.Width)
@@ -387,7 +333,7 @@ func exactExtremes(e *fem.Exact, v View, qs []quantity, near []*curve) (lo, hi [
 			if iv.X(1) < x0 || iv.X(0) > x1 {
 				continue
 			}
-			l, h := iv.Range(q.Quantity)
+			l, h := iv.Range(q)
 			if l.Value < lo[i].value {
 				lo[i] = extreme{l.X, l.Value}
 			}
@@ -418,10 +364,10 @@ func exactExtremes(e *fem.Exact, v View, qs []quantity, near []*curve) (lo, hi [
 // area its own Cache and do not share one between goroutines.
 type Cache struct {
 	solution  *fem.Solution
-	exact     *fem.Exact // the exact solution the gaps were taken against
 	x0, scale float64
 	width     float32
 	drawn     []fem.Quantity
+	gapMemo   gapMemo // the largest gaps, read anew for other solutions
 	sampled   []*curve
 	half      []*curve // memory for the second half of a two-goroutine read
 	exactMem  []*curve // memory for the exact curves, read anew each build
@@ -435,21 +381,16 @@ func grow(cs *[]*curve, n int) []*curve {
 	return (*cs)[:n]
 }
 
-// curves returns the sampled curves of qs with their gaps to e (nil for
-// none), reading the solution only when the solutions, the view's x
-// transform or the quantities changed.
-func (c *Cache) curves(s *fem.Solution, e *fem.Exact, v View, qs []quantity) []*curve {
-	drawn := make([]fem.Quantity, len(qs))
-	for i, q := range qs {
-		drawn[i] = q.Quantity
-	}
+// curves returns the sampled curves of qs, reading the solution only when
+// the solution, the view's x transform or the quantities changed.
+func (c *Cache) curves(s *fem.Solution, v View, qs []fem.Quantity) []*curve {
 	if c == nil {
 		c = &Cache{}
-	} else if c.solution == s && c.exact == e && c.x0 == v.X0 && c.scale == v.Scale && c.width == v.Width && slices.Equal(c.drawn, drawn) {
+	} else if c.solution == s && c.x0 == v.X0 && c.scale == v.Scale && c.width == v.Width && slices.Equal(c.drawn, qs) {
 		return c.sampled[:len(qs)]
 	}
 	cs := grow(&c.sampled, len(qs))
-	sampleCurves(s, e, v, qs, cs, grow(&c.half, len(qs)))
-	c.solution, c.exact, c.x0, c.scale, c.width, c.drawn = s, e, v.X0, v.Scale, v.Width, drawn
+	sampleCurves(s, v, qs, cs, grow(&c.half, len(qs)))
+	c.solution, c.x0, c.scale, c.width, c.drawn = s, v.X0, v.Scale, v.Width, slices.Clone(qs)
 	return cs
 }
