@@ -323,6 +323,9 @@ func (b *builder) largestGap(sd stripData, toY func(float64) float32) (label, bo
 		return label{}, false
 	}
 	x := b.sx(g.at.x)
+	if x < 0 || x > b.v.Width {
+		return label{}, false // the largest gap lies off the view
+	}
 	y0, y1 := toY(g.fe), toY(g.exact)
 	b.line(gapInk, 1.5, Point{x, y0}, Point{x, y1})
 	for _, y := range []float32{y0, y1} {

@@ -209,8 +209,12 @@ func (b *builder) put(l label, r rect, ax float32, leader bool) {
 func (b *builder) symbol(r rect) { b.boxes = append(b.boxes, box{r, symbolBox}) }
 
 // marker draws a dot of radius r at p, a marked point of a curve, and keeps
-// labels off it; hollow draws a ring in c instead.
+// labels off it; hollow draws a ring in c instead. A point off the view
+// (zoomed in elsewhere) is not drawn.
 func (b *builder) marker(p Point, r float32, c color.NRGBA, hollow bool) {
+	if p.X < -r || p.X > b.v.Width+r {
+		return
+	}
 	if hollow {
 		b.circle(p, r, color.NRGBA{}, c, 1.5)
 	} else {
