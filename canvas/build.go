@@ -54,7 +54,8 @@ type builder struct {
 	// lines they keep clear of where they can.
 	boxes  []box
 	curves [][]Point
-	// band bounds the labels placed without bounds of their own (see label.within).
+	// band bounds the labels placed while a band (the sketch, a strip) is
+	// drawn; zero for the whole scene.
 	band rect
 	// texts are the labels, added to the scene after every other item,
 	// over their light backings and leader lines.

@@ -48,9 +48,6 @@ type label struct {
 	at Point
 	// spots are the places to try first, in order of preference.
 	spots []labelSpot
-	// within bounds the box (a strip); zero for the builder's band (the
-	// sketch band while the sketch is drawn), or the scene without one.
-	within rect
 	// optional labels are left out when none of their spots is free;
 	// others move farther out, with a leader.
 	optional bool
@@ -90,10 +87,7 @@ func (b *builder) place(l label) (rect, bool) {
 	for _, s := range l.lines {
 		w = max(w, textWidth(s, l.size, l.bold))
 	}
-	within := l.within
-	if within == (rect{}) {
-		within = b.band
-	}
+	within := b.band // the band being drawn, else the scene
 	if within == (rect{}) {
 		within = rect{0, 0, b.v.Width, b.s.Height}
 	}
@@ -118,20 +112,28 @@ func (b *builder) place(l label) (rect, bool) {
 		}
 		return rect{}, labelSpot{}, false
 	}
+	// A spot of its own clear of the curves; a near ring clear of them, with
+	// a short leader; a spot of its own across a curve; any ring. An
+	// optional label takes its own spots or nothing.
+	if r, s, ok := first(l.spots, true); ok {
+		b.put(l, r, s.ax, false)
+		return r, true
+	}
+	if l.optional {
+		if r, s, ok := first(l.spots, false); ok {
+			b.put(l, r, s.ax, false)
+			return r, true
+		}
+		return rect{}, false
+	}
 	rings := make([][]labelSpot, len(ringSteps))
 	for k, d := range ringSteps {
 		for _, dir := range ringDirections {
 			rings[k] = append(rings[k], labelSpot{l.at.X + d*dir[0], l.at.Y + d*dir[1], (1 - dir[0]) / 2, (1 - dir[1]) / 2})
 		}
 	}
-	// A spot of its own clear of the curves; a near ring clear of them, with
-	// a short leader; a spot of its own across a curve; any ring.
-	if r, s, ok := first(l.spots, true); ok {
-		b.put(l, r, s.ax, false)
-		return r, true
-	}
 	for k := range nearRings {
-		if r, s, ok := first(rings[k], true); ok && !l.optional {
+		if r, s, ok := first(rings[k], true); ok {
 			b.put(l, r, s.ax, true)
 			return r, true
 		}
@@ -139,9 +141,6 @@ func (b *builder) place(l label) (rect, bool) {
 	if r, s, ok := first(l.spots, false); ok {
 		b.put(l, r, s.ax, false)
 		return r, true
-	}
-	if l.optional {
-		return rect{}, false
 	}
 	for _, ring := range rings {
 		if r, s, ok := first(ring, false); ok {
