@@ -133,21 +133,14 @@ func (b *builder) strip(sd stripData) {
 		header = append(header, b.stressLegend(fe, ex))
 	}
 	innerTop := b.legendRow(header, 8, st.top+4, b.v.Width-8) + 8
-	// The sign convention and how the field behaves inside an element, as
-	// much of it as leaves the curve minPlot pixels; room under the curve
-	// for a label beside its lowest point.
-	footer := []string{capitalized(d.legend) + "."}
+	// The sign convention and how the field behaves inside an element, or
+	// the convention alone where the curve would have too little room.
+	convention := capitalized(d.legend) + "."
+	footer := []string{convention}
 	if fe != nil {
-		footer = append(footer, footer[0]+" "+b.insideElement(d.quantity))
+		footer = []string{convention + " " + b.insideElement(d.quantity), convention}
 	}
-	innerBottom := st.bottom - 13
-	for k := len(footer) - 1; k >= 0; k-- {
-		lines := wrap(footer[k], smallSize, false, b.v.Width-16)
-		if top := st.bottom - 3 - TextHeight(smallSize)*float32(len(lines)); top-10-innerTop >= minPlot {
-			innerBottom = b.paragraph(lines, 8, st.bottom-3, smallSize, faintColour) - 10
-			break
-		}
-	}
+	innerBottom := b.footer(footer, innerTop, st.bottom)
 	if unit == units.Stress {
 		innerBottom -= 12 // room for the colour band
 	}
@@ -242,6 +235,20 @@ func (b *builder) boundaries(y0, y1 float32) {
 // minPlot is the least height, px, a strip leaves its curve: the words
 // under it give way first.
 const minPlot = 36
+
+// footer places at the foot of a strip ending at bottom the first of texts
+// whose lines leave the curve minPlot pixels below innerTop, and returns
+// the bottom of the curve's room, with space under it for a label beside
+// its lowest point.
+func (b *builder) footer(texts []string, innerTop, bottom float32) float32 {
+	for _, t := range texts {
+		lines := wrap(t, smallSize, false, b.v.Width-16)
+		if top := bottom - 3 - TextHeight(smallSize)*float32(len(lines)); top-10-innerTop >= minPlot {
+			return b.paragraph(lines, 8, bottom-3, smallSize, faintColour) - 10
+		}
+	}
+	return bottom - 13
+}
 
 // minBoundarySpacing is the average width, px, of the visible elements
 // below which their boundaries are not drawn.

@@ -44,11 +44,7 @@ func (b *builder) nodalStrip(st stripPlace) {
 	sums := fmt.Sprintf("Sums across and moments about x = 0: consistent %s, %s; lumped %s, %s; the load itself %s, %s. Click an element for its load vector.",
 		f(nl.Consistent[fem.Transverse]), m(nl.Consistent[2]), f(nl.Lumped[fem.Transverse]), m(nl.Lumped[2]),
 		f(nl.Resultant[fem.Transverse]), m(nl.Resultant[2]))
-	lines := wrap(sums, smallSize, false, b.v.Width-16)
-	innerBottom := st.bottom - 13
-	if st.bottom-3-TextHeight(smallSize)*float32(len(lines))-10-innerTop >= minPlot {
-		innerBottom = b.paragraph(lines, 8, st.bottom-3, smallSize, faintColour) - 10
-	}
+	innerBottom := b.footer([]string{sums}, innerTop, st.bottom)
 	base := (innerTop + innerBottom) / 2
 	b.line(faintColour, 1, Point{b.clampX(b.sx(0)), base}, Point{b.clampX(b.sx(b.in.Model.Length())), base})
 	b.selectedElement(innerTop, innerBottom)
