@@ -66,6 +66,7 @@ type drawing struct {
 	view  canvas.View
 	scene *canvas.Scene
 	cache canvas.Cache // sampled results, kept while only the mouse moves
+	nodal nodalLoads   // the nodal loads' strip
 
 	gesture  *gesture
 	button   desktop.MouseButton // button held since MouseDown
@@ -213,9 +214,19 @@ func (r *drawingRenderer) Layout(size fyne.Size) {
 
 func (r *drawingRenderer) MinSize() fyne.Size { return r.d.MinSize() }
 
-// Refresh rebuilds the scene from the window's current state.
+// Refresh rebuilds the scene from the window's current state; with the
+// nodal loads of a new solution, the selected element's panel too.
 func (r *drawingRenderer) Refresh() {
-	r.d.scene = canvas.Build(r.d.w.sceneInput(), r.d.view)
+	w := r.d.w
+	in := w.sceneInput()
+	if r.d.nodal.on {
+		nl, fresh := r.d.nodal.of(w.shownSolution())
+		in.NodalLoads = nl
+		if fresh && w.selected.Kind == canvas.Element {
+			defer w.ui.showProperties()
+		}
+	}
+	r.d.scene = canvas.Build(in, r.d.view)
 	r.objects = append([]fyne.CanvasObject{r.background}, drawScene(r.d.scene)...)
 	r.background.Refresh()
 }

@@ -217,6 +217,8 @@ func remove(m *fem.Model, r canvas.Ref) error {
 	case canvas.Member, canvas.MemberEnd:
 		mesh := m.Mesh
 		*m = fem.Model{Mesh: mesh}
+	case canvas.Element:
+		return fmt.Errorf("element %d is part of the mesh, not of the model: change the number of elements below the drawing instead", r.Index+1)
 	default:
 		return fmt.Errorf("nothing selected to delete: click an item first")
 	}
@@ -238,6 +240,8 @@ func describe(r canvas.Ref) string {
 		return fmt.Sprintf("segment %d", r.Index+1)
 	case canvas.Member, canvas.MemberEnd:
 		return "member"
+	case canvas.Element:
+		return fmt.Sprintf("element %d", r.Index+1)
 	}
 	return "nothing"
 }

@@ -99,6 +99,9 @@ func (w *Window) mainMenu() *fyne.MainMenu {
 		w.item("Back to the uniform mesh", nil, w.uniformMesh),
 		w.item("Cancel the running study", nil, w.cancelStudy),
 		fyne.NewMenuItemSeparator(),
+		w.nodalMenuItem(),
+		w.item("Table of the nodal loads…", nil, w.showNodalTable),
+		fyne.NewMenuItemSeparator(),
 		w.item("Check limits…", nil, w.showCheckLimits),
 	)
 	member := fyne.NewMenu("Member",

@@ -412,7 +412,4 @@ func storageUnits(s units.System) storage.UnitSystem {
 }
 
 // describeRef is describe with a capital letter, for panel titles.
-func describeRef(r canvas.Ref) string {
-	s := describe(r)
-	return strings.ToUpper(s[:1]) + s[1:]
-}
+func describeRef(r canvas.Ref) string { return capitalize(describe(r)) }

@@ -128,6 +128,10 @@ func (c *controls) showProperties() {
 	w := c.w
 	m := &w.project.Model
 	r := w.selected
+	if r.Kind == canvas.Element {
+		c.showElementLoads(r.Index)
+		return
+	}
 	title := "Member"
 	if r.Kind != canvas.None && r.Kind != canvas.MemberEnd {
 		title = describeRef(r)

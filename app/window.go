@@ -284,6 +284,8 @@ func (w *Window) keepSelectionValid() {
 		ok = r.Index < len(m.Segments)
 	case canvas.Member, canvas.MemberEnd:
 		ok = len(m.Segments) > 0
+	case canvas.Element:
+		ok = w.draw.nodal.on
 	}
 	if !ok {
 		w.selected = canvas.Ref{}
@@ -462,7 +464,7 @@ func (w *Window) beginDrag(p fyne.Position, button desktop.MouseButton) *gesture
 		}
 		return g
 	}
-	if hit := w.draw.hit(p); hit.Kind != canvas.None && hit.Kind != canvas.Member && hit.Kind != canvas.CheckMark {
+	if hit := w.draw.hit(p); hit.Kind != canvas.None && hit.Kind != canvas.Member && hit.Kind != canvas.CheckMark && hit.Kind != canvas.Element {
 		g.kind, g.target = gestureMove, hit
 		if hit.Kind == canvas.LoadVertex {
 			g.perPixel = w.draw.scene.IntensityPerPixel(hit)

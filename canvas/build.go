@@ -24,7 +24,6 @@ var (
 	selectedColour  = rgb(0xe0, 0x85, 0x00)
 	problemColour   = rgb(0xc0, 0x1c, 0x1c)
 	exactColour     = rgb(0x10, 0x10, 0x10)
-	gapColour       = rgba(0xd0, 0x1e, 0x6a, 0x70)
 	highlightColour = rgba(0xff, 0xc4, 0x2e, 0x50)
 	hoverColour     = rgb(0x40, 0x40, 0x40)
 	white           = rgb(0xff, 0xff, 0xff)
@@ -45,41 +44,51 @@ const (
 	arrowLength   = 44
 )
 
-// rect is a text or symbol box used to keep labels from overlapping.
-type rect struct{ x0, y0, x1, y1 float32 }
-
-func (r rect) overlaps(o rect) bool {
-	return r.x0 < o.x1 && o.x0 < r.x1 && r.y0 < o.y1 && o.y0 < r.y1
-}
-
 // builder accumulates a scene.
 type builder struct {
-	in       Input
-	v        View
-	s        *Scene
-	u        units.System
-	occupied []rect
-	// texts are the labels, added to the scene after every other item.
-	texts []Item
+	in Input
+	v  View
+	s  *Scene
+	u  units.System
+	// boxes are the places labels must keep off (see place); curves the
+	// lines they keep clear of where they can.
+	boxes  []box
+	curves [][]Point
+	// band bounds the labels placed while a band (the sketch, a strip) is
+	// drawn; zero for the whole scene.
+	band rect
+	// texts are the labels, added to the scene after every other item,
+	// over their light backings and leader lines.
+	texts, backings, leaders []Item
 	// clear are the boxes of labels that sit where the deflected shape may
 	// pass (the segment names on the member): the curve breaks around them
 	// instead of running through the glyphs.
 	clear []rect
-	// Finite element curves: the deflection, and one per strip in layout order.
+	// Finite element curves: the deflection, and one per strip in layout
+	// order, with each strip's largest gap to the exact solution when shown.
 	deflection *curve
 	feCurves   []*curve
+	gaps       []gap
 }
 
 // Build lays out the drawing of in for the view v.
-func Build(in Input, v View) *Scene {
+func Build(in Input, v View) *Scene { return build(in, v).scene() }
+
+// build lays out the drawing in a builder, which keeps what was placed
+// where (its boxes) beside the scene.
+func build(in Input, v View) *builder {
 	b := &builder{in: in, v: v, u: in.Units, s: &Scene{Width: v.Width, Height: v.Height}}
 	if b.u.Name == "" {
 		b.u = units.SI
 	}
 	if in.Model == nil {
-		return b.s
+		return b
 	}
-	lay := layout(in.Overlays, v, reactionRows(in))
+	o := in.Overlays
+	if len(in.Model.Segments) == 0 {
+		o = storage.Overlays{} // a new sketch: no member, nothing to plot yet
+	}
+	lay := layout(o, v, reactionRows(in), in.NodalLoads != nil && len(in.Model.Segments) > 0)
 	b.s.SketchBottom = lay.sketchBottom
 	b.s.MemberY = lay.memberY
 	if in.Highlight != [2]float64{} {
@@ -89,21 +98,29 @@ func Build(in Input, v View) *Scene {
 		}
 		b.rectangle(x0, 0, x1, v.Height, highlightColour)
 	}
-	// One walk over the elements reads the deflection and every strip.
+	// One walk over the visible elements reads the deflection and every
+	// strip; one over them all with the exact solution, when it is shown,
+	// finds each strip's largest gap.
 	if in.Solution != nil {
-		qs := []quantity{deflectionQuantity}
+		qs := []fem.Quantity{fem.QDeflection}
 		for _, st := range lay.strips {
-			qs = append(qs, sampled(st.diagram.quantity))
+			qs = append(qs, st.diagram.quantity)
 		}
 		cs := in.Cache.curves(in.Solution, v, qs)
 		b.deflection, b.feCurves = cs[0], cs[1:]
+		if e := b.exact(); e != nil && len(lay.strips) > 0 {
+			b.gaps = in.Cache.gaps(in.Solution, e, qs[1:])
+		}
 	}
 	b.sketch(lay)
+	if lay.nodal != nil {
+		b.nodalStrip(*lay.nodal)
+	}
 	b.diagrams(lay)
 	if in.Hovering {
 		b.hoverLine(b.sx(in.HoverX), lay.top, v.Height)
 	}
-	return b.scene()
+	return b
 }
 
 // hoverLine draws the dashed line under the mouse from y0 to y1, broken
@@ -127,10 +144,19 @@ func (b *builder) hoverLine(x, y0, y1 float32) {
 	}
 }
 
-// scene returns the items built with the texts on top of every other item.
+// exact is the exact solution when the drawing shows it, else nil.
+func (b *builder) exact() *fem.Exact {
+	if b.in.Overlays.ExactBand {
+		return b.in.Exact
+	}
+	return nil
+}
+
+// scene returns the items built with the labels on top of every other
+// item, each over its backing.
 func (b *builder) scene() *Scene {
-	b.s.Items = append(b.s.Items, b.texts...)
-	b.texts = nil
+	b.s.Items = slices.Concat(b.s.Items, b.leaders, b.backings, b.texts)
+	b.texts, b.backings, b.leaders = nil, nil, nil
 	return b.s
 }
 
@@ -216,6 +242,7 @@ func insideSpans(p, q Point, boxes []rect, pad float32) [][2]float32 {
 type layoutBands struct {
 	top, sketchBottom, memberY float32
 	strips                     []stripPlace
+	nodal                      *stripPlace // the nodal loads' strip, when shown
 }
 
 type stripPlace struct {
@@ -223,27 +250,37 @@ type stripPlace struct {
 	top, bottom float32
 }
 
-func layout(l storage.Overlays, v View, rows int) layoutBands {
+// layout places the sketch band and the strips: the nodal loads' first
+// when nodal, then each diagram l switches on.
+func layout(l storage.Overlays, v View, rows int, nodal bool) layoutBands {
 	var on []diagram
 	for _, d := range diagramsList {
 		if d.enabled(l) {
 			on = append(on, d)
 		}
 	}
+	n := len(on)
+	if nodal {
+		n++
+	}
 	top := v.PanY
 	sketch := v.Height
-	if len(on) > 0 {
+	if n > 0 {
 		sketch = max(230, 0.38*v.Height)
-		if v.Height-sketch < float32(len(on))*90 {
-			sketch = max(200, v.Height-float32(len(on))*90)
+		if v.Height-sketch < float32(n)*90 {
+			sketch = max(200, v.Height-float32(n)*90)
 		}
 	}
 	lay := layoutBands{top: top, sketchBottom: top + sketch}
 	// Below the member: support symbols, rows of reactions and two dimension lines.
 	lay.memberY = top + max(sketch*0.5, sketch-belowMember(rows)-40)
-	if len(on) > 0 {
-		stripH := max(90, (v.Height-sketch)/float32(len(on)))
+	if n > 0 {
+		stripH := max(90, (v.Height-sketch)/float32(n))
 		y := lay.sketchBottom
+		if nodal {
+			lay.nodal = &stripPlace{top: y, bottom: y + stripH}
+			y += stripH
+		}
 		for _, d := range on {
 			lay.strips = append(lay.strips, stripPlace{diagram: d, top: y, bottom: y + stripH})
 			y += stripH
@@ -286,38 +323,6 @@ func (b *builder) text(s string, x, y float32, size float32, ax, ay float32, c c
 	return rect{left, top, left + w, top + h}
 }
 
-// label places s at the first candidate anchor whose box does not overlap an
-// earlier label; if none fits it is left out unless force is set.
-func (b *builder) label(s string, size float32, c color.NRGBA, bold, force bool, cands ...labelSpot) (rect, bool) {
-	w, h := textWidth(s, size, bold), TextHeight(size)
-	for i, cand := range cands {
-		if cand.x < -20 || cand.x > b.v.Width+20 {
-			continue // the thing labelled is off screen
-		}
-		left := max(2, min(b.v.Width-w-2, cand.x-cand.ax*w))
-		r := rect{left, cand.y - cand.ay*h, left + w, cand.y - cand.ay*h + h}
-		padded := rect{r.x0 - 3, r.y0 - 1, r.x1 + 3, r.y1 + 1}
-		free := true
-		for _, o := range b.occupied {
-			if padded.overlaps(o) {
-				free = false
-				break
-			}
-		}
-		if free || (force && i == len(cands)-1) {
-			b.occupied = append(b.occupied, r)
-			// A light backing keeps a label readable over hatching and arrows.
-			b.rectangle(r.x0-1, r.y0+1, r.x1+1, r.y1-1, rgba(0xff, 0xff, 0xff, 0xc8))
-			return b.text(s, cand.x, cand.y, size, cand.ax, cand.ay, c, bold), true
-		}
-	}
-	return rect{}, false
-}
-
-type labelSpot struct{ x, y, ax, ay float32 }
-
-func (b *builder) occupy(r rect) { b.occupied = append(b.occupied, r) }
-
 func (b *builder) handle(ref Ref, radius float32, pts ...Point) {
 	b.s.Handles = append(b.s.Handles, Handle{Ref: ref, Points: pts, Radius: radius})
 }
@@ -343,24 +348,35 @@ func (b *builder) arrow(tail, tip Point, c color.NRGBA, width, head float32) {
 	b.polygon(c, color.NRGBA{}, 0, tip, Point{base.X - uy*half, base.Y + ux*half}, Point{base.X + uy*half, base.Y - ux*half})
 }
 
-// format writes an SI value in the chosen unit system.
-func (b *builder) format(q units.Kind, v float64) string { return b.u.Format(q, v) }
+// format writes an SI value in the chosen unit system; a unit that starts
+// with a power of ten gets its multiplication sign: "80.00 × 10⁶ mm⁴", not
+// "80.00 10⁶ mm⁴", which reads as 80.00106 or a product of two numbers.
+func (b *builder) format(q units.Kind, v float64) string {
+	s, sym := b.u.Format(q, v), b.u.Unit(q).Symbol
+	if strings.HasPrefix(sym, "10") && strings.HasSuffix(s, " "+sym) {
+		return strings.TrimSuffix(s, sym) + "× " + sym
+	}
+	return s
+}
 
-// wrap breaks s into lines no wider than w pixels.
+// wrap breaks s into lines no wider than w pixels. A line's width is taken
+// as the sum of its words' and spaces' widths, each measured once: the
+// kerning between a space and a word is far below a pixel.
 func wrap(s string, size float32, bold bool, w float32) []string {
 	var lines []string
-	cur := ""
+	cur, curW := "", float32(0)
+	space := textWidth(" ", size, bold)
 	for _, word := range strings.Fields(s) {
-		try := word
-		if cur != "" {
-			try = cur + " " + word
-		}
-		if cur != "" && textWidth(try, size, bold) > w {
+		ww := textWidth(word, size, bold)
+		if cur != "" && curW+space+ww > w {
 			lines = append(lines, cur)
-			cur = word
+			cur, curW = "", 0
+		}
+		if cur != "" {
+			cur, curW = cur+" "+word, curW+space+ww
 			continue
 		}
-		cur = try
+		cur, curW = word, ww
 	}
 	if cur != "" {
 		lines = append(lines, cur)

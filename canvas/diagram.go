@@ -61,70 +61,106 @@ func capitalized(s string) string {
 }
 
 // diagrams draws every switched-on strip. All strips are sampled in one walk
-// over the elements.
+// over the elements (Build), which also takes each one's extremes and its
+// largest gap to the exact solution in closed form.
 func (b *builder) diagrams(lay layoutBands) {
 	if len(lay.strips) == 0 {
 		return
 	}
-	qs := make([]quantity, len(lay.strips))
+	qs := make([]fem.Quantity, len(lay.strips))
 	for i, st := range lay.strips {
-		qs[i] = sampled(st.diagram.quantity)
+		qs[i] = st.diagram.quantity
 	}
-	fe := b.feCurves
+	// The exact extremes go beside the finite element ones whenever the
+	// exact solution is known; its curve and the gap only when shown.
 	var ex []*curve
-	var gaps []extreme
+	var exLo, exHi []extreme
 	var envs []envelopeStrip
 	switch {
 	case b.in.Envelope != nil:
 		// The upper curves take the place of the solution's (envelope.go).
 		envs = b.envelopeCurves(qs)
-		fe, ex = make([]*curve, len(envs)), make([]*curve, len(envs))
-		for i := range envs {
-			fe[i], ex[i] = envs[i].hi, envs[i].exactHi
-		}
-		gaps = make([]extreme, len(envs))
-	case b.in.Exact != nil && b.in.Overlays.ExactBand:
-		ex, gaps = exactCurves(b.in.Exact, b.in.Solution, b.in.Model, b.v, qs, b.in.Cache)
+	case b.in.Exact != nil && b.feCurves != nil:
+		exLo, exHi = exactExtremes(b.in.Exact, b.v, qs, b.feCurves)
+	}
+	if e := b.exact(); e != nil && envs == nil {
+		ex = exactCurves(e, b.in.Model, b.v, qs, b.in.Cache)
 	}
 	for i, st := range lay.strips {
-		var f, e *curve
-		var gap extreme
-		var env *envelopeStrip
-		if fe != nil {
-			f = fe[i]
+		sd := stripData{place: st}
+		if envs != nil {
+			sd.env = &envs[i]
+			sd.fe, sd.ex = envs[i].hi, envs[i].exactHi
+			b.strip(sd)
+			continue
+		}
+		if b.feCurves != nil {
+			sd.fe = b.feCurves[i]
 		}
 		if ex != nil {
-			e, gap = ex[i], gaps[i]
+			sd.ex = ex[i]
 		}
-		if envs != nil {
-			env = &envs[i]
+		if b.gaps != nil {
+			sd.gap = &b.gaps[i]
 		}
-		b.strip(st, f, e, gap, env)
+		if exLo != nil {
+			sd.exLo, sd.exHi, sd.exact = exLo[i], exHi[i], true
+		}
+		b.strip(sd)
 	}
 }
 
-// strip draws one diagram: axis, FE area and curve, exact curve and the gap
-// between them, extremes and the largest gap labelled.
-// With an envelope, fe and ex are its upper curves and env has the rest.
-func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme, env *envelopeStrip) {
+// stripData is what one strip draws: the finite element curve, the exact
+// one when shown and the exact extremes in closed form when known.
+type stripData struct {
+	place      stripPlace
+	fe, ex     *curve
+	exLo, exHi extreme
+	exact      bool // exLo and exHi are known
+	gap        *gap // the largest gap, when the exact curve is shown
+	// env is the envelope of the combinations, whose upper curves fe and
+	// ex are; nil for one solution.
+	env *envelopeStrip
+}
+
+// strip draws one diagram: its legend, the element boundaries, the finite
+// element area and curve, the exact curve with the gap between them, the
+// extremes of both and the largest gap, each labelled.
+func (b *builder) strip(sd stripData) {
+	st, fe, ex := sd.place, sd.fe, sd.ex
 	d := st.diagram
 	unit := d.quantity.Info().Unit
-	title := capitalized(quantityWords(d.quantity)) + " [" + b.u.Unit(unit).Symbol + "]"
-	b.text(title, 8, st.top+5, titleSize, 0, 0, d.colour, true)
-	tr := rect{0, st.top, 16 + textWidth(title, titleSize, true), st.top + 22}
-	b.occupy(tr)
-	legend := d.legend
-	if env != nil {
-		legend = "envelope of the combinations, upper and lower curve; " + legend
-	}
-	if ex != nil {
-		legend += "; thin black: exact, shaded: gap to FE"
-	}
-	b.occupy(b.text(legend, tr.x1+8, st.top+7, smallSize, 0, 0, faintColour, false))
+	b.band = rect{0, st.top, b.v.Width, st.bottom}
+	defer func() {
+		b.band = rect{}
+		b.line(faintColour, 0.75, Point{0, st.bottom}, Point{b.v.Width, st.bottom})
+	}()
 	if b.in.Unreliable {
-		b.occupy(b.text("UNRELIABLE", b.v.Width-8, st.top+5, labelSize, 1, 0, problemColour, true))
+		b.place(text1("UNRELIABLE", labelSize, problemColour, true, labelSpot{b.v.Width - 8, st.top + 5, 1, 0}))
 	}
-	defer b.line(faintColour, 0.75, Point{0, st.bottom}, Point{b.v.Width, st.bottom})
+	title := capitalized(quantityWords(d.quantity)) + " [" + b.u.Unit(unit).Symbol + "]"
+	header := []legendItem{{text: title, size: titleSize, colour: d.colour, bold: true}}
+	if sd.env != nil {
+		header = append(header, legendItem{text: "envelope of the combinations, upper and lower curve", size: smallSize, colour: inkColour})
+	}
+	if fe != nil {
+		header = append(header, b.stripLegend(d, ex != nil)...)
+	}
+	if unit == units.Stress && stressPeak(fe, ex) > 0 {
+		header = append(header, b.stressLegend(fe, ex))
+	}
+	innerTop := b.legendRow(header, 8, st.top+4, b.v.Width-8) + 8
+	// The sign convention and how the field behaves inside an element, or
+	// the convention alone where the curve would have too little room.
+	convention := capitalized(d.legend) + "."
+	footer := []string{convention}
+	if fe != nil {
+		footer = []string{convention + " " + b.insideElement(d.quantity), convention}
+	}
+	innerBottom := b.footer(footer, innerTop, st.bottom)
+	if unit == units.Stress {
+		innerBottom -= 12 // room for the colour band
+	}
 
 	lo, hi := 0.0, 0.0
 	for _, c := range []*curve{fe, ex} {
@@ -132,19 +168,15 @@ func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme, env *envelope
 			lo, hi = min(lo, c.lo.value), max(hi, c.hi.value)
 		}
 	}
-	if env != nil {
-		lo, hi = env.envelopeRange(lo, hi)
+	if sd.env != nil {
+		lo, hi = sd.env.envelopeRange(lo, hi)
 	}
-	// Room above and below the curve for the labels of its extremes.
-	innerTop, innerBottom := st.top+40, st.bottom-20
-	if unit == units.Stress {
-		innerBottom -= 12 // room for the colour band
+	zero := hi == lo
+	if zero {
+		lo, hi = -0.5, 0.5 // zero everywhere: the axis in the middle
 	}
 	span := hi - lo
-	if span == 0 || fe == nil && ex == nil {
-		span = 1
-	}
-	upp := span / float64(innerBottom-innerTop) // SI per pixel
+	upp := span / float64(max(innerBottom-innerTop, 10)) // SI per pixel
 	toY := func(v float64) float32 {
 		if d.downPositive {
 			return innerTop + float32((v-lo)/upp)
@@ -157,10 +189,16 @@ func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme, env *envelope
 		sign = -1
 	}
 	b.s.Strips = append(b.s.Strips, Strip{Name: capitalized(d.quantity.Info().Name), Top: st.top, Bottom: st.bottom, BaselineY: baseY, UnitsPerPixel: sign * upp})
+	if fe != nil {
+		b.boundaries(innerTop-4, innerBottom+4)
+	}
 	l := b.in.Model.Length()
 	b.line(faintColour, 1, Point{b.clampX(b.sx(0)), baseY}, Point{b.clampX(b.sx(l)), baseY})
 	if fe == nil && ex == nil {
-		b.text("no results", b.v.Width/2, (st.top+st.bottom)/2, labelSize, 0.5, 0.5, faintColour, false)
+		return // not solved (the sketch says why)
+	}
+	if zero {
+		b.place(text1("zero along the whole member", smallSize, faintColour, false, labelSpot{(b.sx(0) + b.sx(l)) / 2, baseY - 3, 0.5, 1}))
 		return
 	}
 	var fePts, exPts []Point
@@ -177,74 +215,163 @@ func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme, env *envelope
 		for k := len(exPts) - 1; k >= 0; k-- {
 			band = append(band, exPts[k])
 		}
-		b.polygon(gapColour, color.NRGBA{}, 0, band...)
+		b.polygon(gapFill, color.NRGBA{}, 0, band...)
 	}
-	if env != nil {
-		b.envelopeLower(env, d.colour, toY)
+	if sd.env != nil {
+		b.envelopeLower(sd.env, d.colour, toY)
 	}
 	if len(fePts) > 0 {
 		b.line(d.colour, 1.8, fePts...)
+		b.avoid(fePts)
 	}
 	if len(exPts) > 0 {
 		b.line(exactColour, 0.9, exPts...)
+		b.avoid(exPts)
 	}
 	if unit == units.Stress {
-		b.stressBand(fe, ex, innerBottom+6, st.top+8)
+		b.stressBand(fe, ex, innerBottom+6)
 	}
-	main := fe
-	if main == nil || main.n == 0 {
-		main = ex
-	}
-	if env != nil {
-		b.envelopeExtremes(d.quantity, d, env, toY)
+	// Every mark first, so that no label covers one.
+	var labels []label
+	if sd.env != nil {
+		labels = b.envelopeExtremes(d, sd.env, toY)
 	} else {
-		b.extremes(main, d, toY)
+		labels = b.stripExtremes(sd, toY)
+		if gap, ok := b.largestGap(sd, toY); ok {
+			labels = append(labels, gap)
+		}
 	}
-	if ex != nil && fe != nil && gap.value != 0 && math.Abs(gap.value) > 1e-9*max(math.Abs(lo), math.Abs(hi)) {
-		gx := b.sx(gap.x)
-		b.circle(Point{gx, toY(ex.valueNear(gap.x))}, 3, color.NRGBA{}, gapColour, 1.5)
-		s := fmt.Sprintf("largest gap %s at %s", b.format(unit, math.Abs(gap.value)), b.format(units.Position, gap.x))
-		b.label(s, smallSize, rgb(0xa0, 0x10, 0x50), false, true,
-			labelSpot{gx, st.bottom - 3, 0.5, 1}, labelSpot{b.v.Width - 8, st.bottom - 3, 1, 1})
+	for _, l := range labels {
+		b.place(l)
 	}
 }
 
-// valueNear is the curve value in the column holding x (its last sample).
-func (c *curve) valueNear(x float64) float64 {
-	k := int(math.Floor(float64(c.v.ToScreenX(x)))) + 1
-	k = max(0, min(len(c.cols)-1, k))
-	return c.cols[k].last.value
-}
-
-// extremes labels the highest and lowest values with their positions.
-func (b *builder) extremes(c *curve, d diagram, toY func(float64) float32) {
-	if c == nil || c.n == 0 {
+// boundaries draws the element boundaries from y0 to y1, faint, where
+// the visible elements are at least minBoundarySpacing pixels wide on
+// average; a finer mesh would only grey the strip.
+func (b *builder) boundaries(y0, y1 float32) {
+	xs := visibleNodes(b.in.Solution.Mesh.X, b.v)
+	if len(xs) < 2 || float32(len(xs)) > b.v.Width/minBoundarySpacing {
 		return
 	}
-	for _, e := range []extreme{c.hi, c.lo} {
-		// A value at round-off of the diagram's size is a zero and gets no
-		// label; a constant diagram gets one.
-		size := max(math.Abs(c.hi.value), math.Abs(c.lo.value))
-		if math.Abs(e.value) <= 1e-9*size || (e == c.lo && math.Abs(c.hi.value-c.lo.value) <= 1e-9*math.Abs(c.hi.value)) {
-			continue
-		}
-		b.peakLabel(e.x, e.value, fmt.Sprintf("%s at %s", b.format(d.quantity.Info().Unit, e.value), b.format(units.Position, e.x)), d, toY)
+	for _, x := range xs {
+		px := b.sx(x)
+		b.line(boundaryColour, 0.7, Point{px, y0}, Point{px, y1})
 	}
 }
 
-// peakLabel marks the value v at x and labels it s, outside the curve:
-// above a peak drawn upward, below one drawn downward.
-func (b *builder) peakLabel(x, v float64, s string, d diagram, toY func(float64) float32) {
-	px, py := b.sx(x), toY(v)
-	b.circle(Point{px, py}, 2.5, d.colour, color.NRGBA{}, 0)
-	up := (v > 0) != d.downPositive
-	ay, dy := float32(1), float32(-4)
-	if !up {
-		ay, dy = 0, 4
+// minPlot is the least height, px, a strip leaves its curve: the words
+// under it give way first.
+const minPlot = 36
+
+// footer places at the foot of a strip ending at bottom the first of texts
+// whose lines leave the curve minPlot pixels below innerTop, and returns
+// the bottom of the curve's room, with space under it for a label beside
+// its lowest point.
+func (b *builder) footer(texts []string, innerTop, bottom float32) float32 {
+	for _, t := range texts {
+		lines := wrap(t, smallSize, false, b.v.Width-16)
+		if top := bottom - 3 - TextHeight(smallSize)*float32(len(lines)); top-10-innerTop >= minPlot {
+			return b.paragraph(lines, 8, bottom-3, smallSize, faintColour) - 10
+		}
 	}
-	b.label(s, smallSize, inkColour, false, true,
-		labelSpot{px, py + dy, 0.5, ay}, labelSpot{px + 6, py + dy, 0, ay}, labelSpot{px - 6, py + dy, 1, ay},
-		labelSpot{px + 6, py, 0, 0.5})
+	return bottom - 13
+}
+
+// minBoundarySpacing is the average width, px, of the visible elements
+// below which their boundaries are not drawn.
+const minBoundarySpacing = 5
+
+var boundaryColour = rgba(0x8a, 0x90, 0x96, 0x70)
+
+// stripExtremes marks the largest and the smallest value of the finite
+// element curve, and of the exact one when shown, and returns their labels,
+// each beside the same extreme of the exact solution when known; an extreme
+// near zero against the field's largest magnitude is left unmarked.
+func (b *builder) stripExtremes(sd stripData, toY func(float64) float32) []label {
+	fe, d := sd.fe, sd.place.diagram
+	if fe == nil || fe.n == 0 {
+		return nil
+	}
+	exact := sd.exact
+	size := max(math.Abs(fe.peakLo.value), math.Abs(fe.peakHi.value))
+	if exact {
+		size = max(size, math.Abs(sd.exLo.value), math.Abs(sd.exHi.value))
+	}
+	type pair struct {
+		fe, ex extreme
+		up     bool // drawn toward the top of the strip
+	}
+	var pairs []pair
+	for _, p := range []pair{{fe.peakHi, sd.exHi, !d.downPositive}, {fe.peakLo, sd.exLo, d.downPositive}} {
+		constant := p.fe == fe.peakLo && math.Abs(fe.peakHi.value-fe.peakLo.value) <= 1e-9*size
+		if !exact {
+			p.ex = p.fe
+		}
+		if labelled(p.fe.value, p.ex.value, size) && !constant {
+			pairs = append(pairs, p)
+		}
+	}
+	var labels []label
+	for _, p := range pairs {
+		b.marker(Point{b.sx(p.fe.x), toY(p.fe.value)}, 2.5, d.colour, false)
+		if sd.ex != nil {
+			b.marker(Point{b.sx(p.ex.x), toY(p.ex.value)}, 3, exactColour, true)
+		}
+		var ex *extreme
+		if exact {
+			ex = &p.ex
+		}
+		at := Point{b.sx(p.fe.x), toY(p.fe.value)}
+		labels = append(labels, b.extremeLabel("", d.quantity.Info().Unit, p.fe, ex, at, p.up, inkColour))
+	}
+	return labels
+}
+
+// besideSpots are the spots for a label of a curve's point at: outside the
+// curve first (above a point drawn toward the top, below one drawn toward
+// the bottom), then beside it.
+func besideSpots(at Point, up bool) []labelSpot {
+	ay, dy := float32(1), float32(-5)
+	if !up {
+		ay, dy = 0, 5
+	}
+	return []labelSpot{
+		{at.X, at.Y + dy, 0.5, ay}, {at.X + 6, at.Y + dy, 0, ay}, {at.X - 6, at.Y + dy, 1, ay},
+		{at.X + 8, at.Y, 0, 0.5}, {at.X - 8, at.Y, 1, 0.5},
+	}
+}
+
+// gapInk is the colour of the largest gap's mark and label.
+var gapInk = rgb(0xa0, 0x10, 0x50)
+
+// largestGap marks where the finite element curve is farthest from the
+// exact one, with a bar between the two, and returns its label; false when
+// they agree to round-off.
+func (b *builder) largestGap(sd stripData, toY func(float64) float32) (label, bool) {
+	fe, g := sd.fe, sd.gap
+	if fe == nil || g == nil || !sd.exact {
+		return label{}, false
+	}
+	size := max(math.Abs(fe.peakLo.value), math.Abs(fe.peakHi.value), math.Abs(sd.exLo.value), math.Abs(sd.exHi.value))
+	if g.at.value <= tie*size {
+		return label{}, false
+	}
+	x := b.sx(g.at.x)
+	if x < 0 || x > b.v.Width {
+		return label{}, false // the largest gap lies off the view
+	}
+	y0, y1 := toY(g.fe), toY(g.exact)
+	b.line(gapInk, 1.5, Point{x, y0}, Point{x, y1})
+	for _, y := range []float32{y0, y1} {
+		b.line(gapInk, 1.5, Point{x - 3, y}, Point{x + 3, y})
+	}
+	b.boxes = append(b.boxes, box{rect{x - 3, min(y0, y1) - 1, x + 3, max(y0, y1) + 1}, markerBox})
+	unit := sd.place.diagram.quantity.Info().Unit
+	s := fmt.Sprintf("largest gap %s at %s", b.format(unit, g.at.value), b.format(units.Position, g.at.x))
+	at := Point{x, max(y0, y1)}
+	return label{lines: []string{s}, size: smallSize, colour: gapInk, at: at,
+		spots: append(besideSpots(at, false), besideSpots(Point{x, min(y0, y1)}, true)...)}, true
 }
 
 // stressColour maps a stress to a diverging colour: compression violet,
@@ -261,30 +388,44 @@ func stressColour(t float64) color.NRGBA {
 	return color.NRGBA{mix(0), mix(1), mix(2), 0xff}
 }
 
-// stressBand draws a colour strip along the member, one run per colour step,
-// and its legend.
-func (b *builder) stressBand(fe, ex *curve, y, legendY float32) {
+// stressSteps is the number of colour steps from zero to the largest stress.
+const stressSteps = 16
+
+// stressPeak is the largest magnitude of the stress the band colours: the
+// finite element curve's, or the exact one's without it.
+func stressPeak(fe, ex *curve) float64 {
 	c := fe
 	if c == nil || c.n == 0 {
 		c = ex
 	}
-	peak := math.Abs(c.peakAbs().value)
+	if c == nil {
+		return 0
+	}
+	return math.Abs(c.peakAbs().value)
+}
+
+// stressBand draws a colour strip along the member at y, one run per colour step.
+func (b *builder) stressBand(fe, ex *curve, y float32) {
+	c := fe
+	if c == nil || c.n == 0 {
+		c = ex
+	}
+	peak := stressPeak(fe, ex)
 	if peak == 0 {
 		return
 	}
-	const steps = 16
 	step := func(col column) int {
 		v := col.hi.value
 		if -col.lo.value > v {
 			v = col.lo.value
 		}
-		return int(math.Round(v / peak * steps))
+		return int(math.Round(v / peak * stressSteps))
 	}
 	runStart, runStep := -1, 0
 	flush := func(end int) {
 		if runStart >= 0 {
 			x0, x1 := float32(runStart-1), float32(end-1)
-			b.rectangle(x0, y, x1, y+8, stressColour(float64(runStep)/steps))
+			b.rectangle(x0, y, x1, y+8, stressColour(float64(runStep)/stressSteps))
 		}
 	}
 	last := 0
@@ -299,14 +440,18 @@ func (b *builder) stressBand(fe, ex *curve, y, legendY float32) {
 		last = k
 	}
 	flush(last + 1)
-	// Legend: compression on the left, tension on the right.
-	lx := b.v.Width - 190
-	ly := legendY
-	for k := -steps; k < steps; k++ {
-		x := lx + float32(k+steps)*4
-		b.rectangle(x, ly, x+4, ly+8, stressColour((float64(k)+0.5)/steps))
-	}
-	b.text(b.format(units.Stress, -peak), lx-3, ly+4, smallSize-1, 1, 0.5, faintColour, false)
-	b.text(b.format(units.Stress, peak), lx+4*2*steps+3, ly+4, smallSize-1, 0, 0.5, faintColour, false)
-	b.occupy(rect{lx - 60, ly - 2, b.v.Width, ly + 10})
+}
+
+// stressLegend is the colour band's legend, a legend item: compression on
+// the left, tension on the right, each end labelled with its stress.
+func (b *builder) stressLegend(fe, ex *curve) legendItem {
+	peak := stressPeak(fe, ex)
+	words := fmt.Sprintf("colour band: %s to %s", b.format(units.Stress, -peak), b.format(units.Stress, peak))
+	const w = 4 * 2 * stressSteps / 2
+	return legendItem{width: w, text: words, size: smallSize, colour: faintColour, swatch: func(x, y float32) {
+		for k := -stressSteps; k < stressSteps; k++ {
+			sx := x + float32(k+stressSteps)*2
+			b.rectangle(sx, y-4, sx+2, y+4, stressColour((float64(k)+0.5)/stressSteps))
+		}
+	}}
 }

@@ -3,6 +3,7 @@ package canvas
 import (
 	"fmt"
 	"image/color"
+	"math"
 
 	"stave/fem"
 	"stave/fem/units"
@@ -28,12 +29,12 @@ type envelopeStrip struct {
 
 // envelopeCurves samples the envelope once per pixel column and on both
 // sides of every key point, for the strips' quantities.
-func (b *builder) envelopeCurves(qs []quantity) []envelopeStrip {
+func (b *builder) envelopeCurves(qs []fem.Quantity) []envelopeStrip {
 	env := b.in.Envelope
 	exact := b.in.Overlays.ExactBand && env.Solutions.FixedExact != nil
 	out := make([]envelopeStrip, len(qs))
 	for i, q := range qs {
-		out[i] = envelopeStrip{quantity: q.Quantity, hi: new(curve), lo: new(curve)}
+		out[i] = envelopeStrip{quantity: q, hi: new(curve), lo: new(curve)}
 		out[i].hi.reset(b.v)
 		out[i].lo.reset(b.v)
 		if exact {
@@ -102,7 +103,7 @@ func (b *builder) envelopeLower(es *envelopeStrip, colour color.NRGBA, toY func(
 		for k := len(ex) - 1; k >= 0; k-- {
 			band = append(band, ex[k])
 		}
-		b.polygon(gapColour, color.NRGBA{}, 0, band...)
+		b.polygon(gapFill, color.NRGBA{}, 0, band...)
 		b.line(exactColour, 0.9, ex...)
 	}
 	if len(lo) > 0 {
@@ -110,29 +111,47 @@ func (b *builder) envelopeLower(es *envelopeStrip, colour color.NRGBA, toY func(
 	}
 }
 
-// envelopeExtremes labels the envelope's largest and smallest value of
-// quantity q with the combination that governs each; without the closed
-// form, the largest and smallest sample of es.
-func (b *builder) envelopeExtremes(q fem.Quantity, d diagram, es *envelopeStrip, toY func(float64) float32) {
-	env := b.in.Envelope
+// envelopeExtremes marks the envelope's largest and smallest value of the
+// strip's quantity and returns their labels, each naming the combination
+// that governs it; without the closed form, the largest and smallest
+// sample of es. A value near zero against the largest is left unmarked.
+func (b *builder) envelopeExtremes(d diagram, es *envelopeStrip, toY func(float64) float32) []label {
+	q, env := d.quantity, b.in.Envelope
+	type peak struct {
+		x, value float64
+		by       string
+	}
+	var peaks []peak
 	if env.Result == nil {
-		for _, e := range []extreme{es.hi.hi, es.lo.lo} {
-			if e.value != 0 && es.hi.n > 0 {
-				b.peakLabel(e.x, e.value, fmt.Sprintf("%s at %s", b.format(q.Info().Unit, e.value), b.format(units.Position, e.x)), d, toY)
+		if es.hi.n > 0 {
+			peaks = []peak{{es.hi.hi.x, es.hi.hi.value, ""}, {es.lo.lo.x, es.lo.lo.value, ""}}
+		}
+	} else {
+		for _, qe := range env.Result.Quantities {
+			if qe.Quantity == q {
+				for _, g := range []fem.Governing{qe.Max, qe.Min} {
+					peaks = append(peaks, peak{g.X, g.Value, env.Names[g.Combination]})
+				}
 			}
 		}
-		return
 	}
-	for _, qe := range env.Result.Quantities {
-		if qe.Quantity != q {
+	size := 0.0
+	for _, p := range peaks {
+		size = max(size, math.Abs(p.value))
+	}
+	var labels []label
+	for _, p := range peaks {
+		if !labelled(p.value, p.value, size) {
 			continue
 		}
-		for _, g := range []fem.Governing{qe.Max, qe.Min} {
-			if g.Value == 0 {
-				continue
-			}
-			s := fmt.Sprintf("%s at %s, %s", b.format(q.Info().Unit, g.Value), b.format(units.Position, g.X), env.Names[g.Combination])
-			b.peakLabel(g.X, g.Value, s, d, toY)
+		at := Point{b.sx(p.x), toY(p.value)}
+		b.marker(at, 2.5, d.colour, false)
+		s := fmt.Sprintf("%s at %s", b.format(q.Info().Unit, p.value), b.format(units.Position, p.x))
+		if p.by != "" {
+			s += ", " + p.by
 		}
+		up := (p.value > 0) != d.downPositive
+		labels = append(labels, label{lines: []string{s}, size: smallSize, colour: inkColour, at: at, spots: besideSpots(at, up)})
 	}
+	return labels
 }

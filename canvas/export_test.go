@@ -5,6 +5,7 @@ import (
 	"encoding/csv"
 	"image/png"
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
@@ -93,14 +94,21 @@ func TestSheet(t *testing.T) {
 		t.Errorf("the sheet PNG is %d × %d pixels, want A4 at 150 dpi, 1240 × 1754", b.Dx(), b.Dy())
 	}
 	page := buildSheet(in)
-	found := map[string]bool{}
+	var lines []string
 	for _, it := range page.Items {
-		found[it.Text] = true
+		lines = append(lines, it.Text)
 	}
-	for _, want := range []string{Caution, "Project: Demo hall", "• " + in.Checks[0], extremeLabel(in.Input)} {
-		if !found[want] {
+	for _, want := range []string{Caution, "Project: Demo hall", "• " + in.Checks[0]} {
+		if !slices.Contains(lines, want) {
 			t.Errorf("the sheet has no line %q", want)
 		}
+	}
+	// 8.36e-5 m⁴ is 83.60 × 10⁶ mm⁴: the power of ten with its ×.
+	if want := "I 83.60 × 10⁶ mm⁴"; !slices.ContainsFunc(lines, func(s string) bool { return strings.Contains(s, want) }) {
+		t.Errorf("the sheet's model table does not say %q", want)
+	}
+	if want := extremeLabel(in.Input); !slices.ContainsFunc(lines, func(s string) bool { return strings.HasPrefix(s, "FE ") && strings.Contains(s, want) }) {
+		t.Errorf("the sheet's drawing has no label saying the finite element bending moment reaches %q", want)
 	}
 	if err := WriteSheet(&img, "tiff", in); err == nil {
 		t.Error("an unknown sheet format was accepted")

@@ -37,6 +37,11 @@ type Input struct {
 	// Marks are places the checks point at, drawn as small markers along
 	// the foot of the sketch with CheckMark handles.
 	Marks []Mark
+	// NodalLoads, when not nil, adds a strip under the sketch with the
+	// nodal loads of the solution's mesh, consistent beside lumped, whose
+	// elements can be pointed at (Element handles); the selected element's
+	// span is shaded.
+	NodalLoads *fem.NodalLoads
 	// Cache, when not nil, keeps sampled results between builds (see Cache).
 	Cache *Cache
 	// Envelope, when not nil, is drawn in the strips instead of Solution
@@ -49,4 +54,5 @@ type Mark struct {
 	X      float64 // where the check points, m
 	Index  int     // the caller's check index, returned as Ref.Index of its handle
 	Severe bool    // a failed check (drawn in the problem colour) rather than a warning
+	Name   string  // what the mark stands for, written beside it ("caution: Stress, segment 1")
 }

@@ -2,10 +2,8 @@ package canvas
 
 import (
 	"bytes"
-	"encoding/xml"
 	"image"
 	"image/png"
-	"io"
 	"regexp"
 	"strings"
 	"testing"
@@ -97,20 +95,7 @@ func TestSVGParsesAndLabelsExtremes(t *testing.T) {
 	if err := WriteSVG(&buf, s); err != nil {
 		t.Fatal(err)
 	}
-	dec := xml.NewDecoder(bytes.NewReader(buf.Bytes()))
-	var texts []string
-	for {
-		tok, err := dec.Token()
-		if err == io.EOF {
-			break
-		}
-		if err != nil {
-			t.Fatalf("the SVG is not XML: %v", err)
-		}
-		if cd, ok := tok.(xml.CharData); ok {
-			texts = append(texts, string(cd))
-		}
-	}
+	texts := svgTexts(t, buf.Bytes())
 	want := extremeLabel(in)
 	if !strings.Contains(strings.Join(texts, "\n"), want) {
 		t.Errorf("the SVG has no text %q labelling the largest bending moment", want)

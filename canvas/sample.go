@@ -8,23 +8,6 @@ import (
 	"stave/fem"
 )
 
-// quantity is one result quantity as the sampler reads it. How it varies
-// inside an element, which decides what must be read at the element's
-// ends, is asked of the solution's element formulations
-// (fem.Solution.Varies).
-type quantity struct {
-	fem.Quantity
-	// peaks asks for the quantity's extremes in closed form as well as its
-	// samples: the deformed shape labels its peak where the deflection's
-	// cubic has zero slope, as the results table reports it.
-	peaks bool
-}
-
-// sampled is q as the sampler reads it for a diagram.
-func sampled(q fem.Quantity) quantity { return quantity{Quantity: q} }
-
-var deflectionQuantity = quantity{Quantity: fem.QDeflection, peaks: true}
-
 // extreme is a value and where it occurs.
 type extreme struct{ x, value float64 }
 
@@ -44,7 +27,8 @@ type curve struct {
 	lo, hi extreme // over all samples
 	n      int
 	// peakLo and peakHi are the extremes in closed form over the elements
-	// read, for a quantity that asks for them (quantity.peaks).
+	// read, so a drawing labels them where the results table reports them,
+	// whatever its width.
 	peakLo, peakHi extreme
 }
 
@@ -144,7 +128,7 @@ func (c *curve) merge(o *curve) {
 // peakAbs is the sample of largest magnitude.
 func (c *curve) peakAbs() extreme { return largerOf(c.n, c.lo, c.hi) }
 
-// peak is the closed-form extreme of largest magnitude (quantity.peaks).
+// peak is the closed-form extreme of largest magnitude.
 func (c *curve) peak() extreme { return largerOf(c.n, c.peakLo, c.peakHi) }
 
 // largerOf is lo or hi, whichever is larger in magnitude; zero without samples.
@@ -197,7 +181,7 @@ const maxSamplesPerElement = 48
 // follows from the start, see variation) and the result is bounded by the
 // width. Many visible elements are read in two halves at once, one per core,
 // the second into the curves of half (one per quantity).
-func sampleCurves(s *fem.Solution, v View, qs []quantity, cs, half []*curve) {
+func sampleCurves(s *fem.Solution, v View, qs []fem.Quantity, cs, half []*curve) {
 	for _, c := range cs {
 		c.reset(v)
 	}
@@ -234,11 +218,9 @@ func sampleCurves(s *fem.Solution, v View, qs []quantity, cs, half []*curve) {
 // saves (a few microseconds against about 0.1 µs per element).
 const parallelElements = 4096
 
-// sampleElements adds the samples of elements from ≤ i < to to cs; the
-// visible elements end before element visible.
-func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, to, visible int) {
-	// The quantities are read by pointer: a copy of each, strings and all,
-	// for every sample cost more than reading the sample.
+// sampleElements adds the samples of elements from ≤ i < to to cs, and
+// their extremes; the visible elements end before element visible.
+func sampleElements(s *fem.Solution, v View, qs []fem.Quantity, cs []*curve, from, to, visible int) {
 	add := func(x float64, f *fem.Fields) {
 		k := cs[0].column(x)
 		for i := range qs {
@@ -249,7 +231,7 @@ func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, t
 	// the next element's start repeats, nor below a pixel for a constant one.
 	nodal, constant := make([]bool, len(qs)), make([]bool, len(qs))
 	for i, q := range qs {
-		vary := s.Varies(q.Quantity)
+		vary := s.Varies(q)
 		nodal[i], constant[i] = vary.Nodal, vary.Degree == 0
 	}
 	// The fields of the samples, kept in one place: passed by pointer to the
@@ -257,9 +239,7 @@ func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, t
 	f := new(fem.Fields)
 	for el := range s.Elements(nil, from, to) {
 		for i, q := range qs {
-			if q.peaks {
-				cs[i].takePeaks(el.FE.Range(q.Quantity))
-			}
+			cs[i].takePeaks(el.FE.Range(q))
 		}
 		h := el.End - el.Start
 		inner := int(min(maxSamplesPerElement, h*v.Scale/3))
@@ -292,21 +272,19 @@ func sampleElements(s *fem.Solution, v View, qs []quantity, cs []*curve, from, t
 }
 
 // exactCurves reads the exact solution once per pixel column and on both
-// sides of every key point, and measures the gap to the finite element
-// solution (when s is not nil) at the same places.
-func exactCurves(e *fem.Exact, s *fem.Solution, m *fem.Model, v View, qs []quantity, c *Cache) (cs []*curve, gaps []extreme) {
+// sides of every key point.
+func exactCurves(e *fem.Exact, m *fem.Model, v View, qs []fem.Quantity, c *Cache) []*curve {
 	var memory []*curve
 	if c != nil {
-		memory = c.exact
-		defer func() { c.exact = memory }()
+		memory = c.exactMem
+		defer func() { c.exactMem = memory }()
 	}
-	cs = grow(&memory, len(qs))
+	cs := grow(&memory, len(qs))
 	for _, cv := range cs {
 		cv.reset(v)
 	}
-	gaps = make([]extreme, len(qs))
 	l := m.Length()
-	f, g := new(fem.Fields), new(fem.Fields) // see sampleElements
+	f := new(fem.Fields) // see sampleElements
 	add := func(x float64, side fem.Side) {
 		// Beyond the ends there is no other side to read.
 		if x <= 0 {
@@ -315,24 +293,15 @@ func exactCurves(e *fem.Exact, s *fem.Solution, m *fem.Model, v View, qs []quant
 			side = fem.Left
 		}
 		*f = e.At(x, side)
-		if s != nil {
-			*g = s.At(x, side)
-		}
 		for i, q := range qs {
-			ev := q.Of(f)
-			cs[i].add(x, ev)
-			if s != nil {
-				if d := q.Of(g) - ev; math.Abs(d) > math.Abs(gaps[i].value) {
-					gaps[i] = extreme{x, d}
-				}
-			}
+			cs[i].add(x, q.Of(f))
 		}
 	}
 	eachPixel(m, v, add)
 	for _, c := range cs {
 		c.finish()
 	}
-	return cs, gaps
+	return cs
 }
 
 // eachPixel calls add at one x per pixel column of the visible part of m,
@@ -354,6 +323,47 @@ func eachPixel(m *fem.Model, v View, add func(x float64, side fem.Side)) {
 	}
 }
 
+// exactExtremes are the smallest and largest exact values of each of qs in
+// closed form, over the stretches between key points that reach into the
+// view: a stretch's every field is one polynomial (fem.Exact.Intervals).
+// Where the exact solution reaches an extreme also at the place of the
+// finite element extreme of the same kind in near, to round-off (the two
+// ends of a symmetric span, say), that place is taken, so that a label
+// pairs the two where they belong together.
+func exactExtremes(e *fem.Exact, v View, qs []fem.Quantity, near []*curve) (lo, hi []extreme) {
+	lo, hi = make([]extreme, len(qs)), make([]extreme, len(qs))
+	ivs := e.Intervals()
+	x0, x1 := v.ToModelX(0), v.ToModelX(v.Width)
+	for i, q := range qs {
+		lo[i], hi[i] = extreme{value: math.Inf(1)}, extreme{value: math.Inf(-1)}
+		for _, iv := range ivs {
+			if iv.X(1) < x0 || iv.X(0) > x1 {
+				continue
+			}
+			l, h := iv.Range(q)
+			if l.Value < lo[i].value {
+				lo[i] = extreme{l.X, l.Value}
+			}
+			if h.Value > hi[i].value {
+				hi[i] = extreme{h.X, h.Value}
+			}
+		}
+		size := max(math.Abs(lo[i].value), math.Abs(hi[i].value))
+		for _, p := range [2]struct {
+			ex *extreme
+			fe extreme
+		}{{&lo[i], near[i].peakLo}, {&hi[i], near[i].peakHi}} {
+			for _, side := range [2]fem.Side{fem.Left, fem.Right} {
+				f := e.At(p.fe.x, side)
+				if math.Abs(q.Of(&f)-p.ex.value) <= tie*size {
+					p.ex.x = p.fe.x
+				}
+			}
+		}
+	}
+	return lo, hi
+}
+
 // Cache keeps the sampled finite element curves between builds of the same
 // solution in the same view, so a hover or a selection change redraws without
 // reading a large solution again; after any other change it lends their
@@ -364,9 +374,10 @@ type Cache struct {
 	x0, scale float64
 	width     float32
 	drawn     []fem.Quantity
+	gapMemo   gapMemo // the largest gaps, read anew for other solutions
 	sampled   []*curve
 	half      []*curve // memory for the second half of a two-goroutine read
-	exact     []*curve // memory for the exact curves, read anew each build
+	exactMem  []*curve // memory for the exact curves, read anew each build
 }
 
 // grow returns the first n of *cs, adding empty curves as needed.
@@ -377,20 +388,16 @@ func grow(cs *[]*curve, n int) []*curve {
 	return (*cs)[:n]
 }
 
-// curves returns the sampled curves of qs, reading the solution only when the
-// solution, the view's x transform or the quantities changed.
-func (c *Cache) curves(s *fem.Solution, v View, qs []quantity) []*curve {
-	drawn := make([]fem.Quantity, len(qs))
-	for i, q := range qs {
-		drawn[i] = q.Quantity
-	}
+// curves returns the sampled curves of qs, reading the solution only when
+// the solution, the view's x transform or the quantities changed.
+func (c *Cache) curves(s *fem.Solution, v View, qs []fem.Quantity) []*curve {
 	if c == nil {
 		c = &Cache{}
-	} else if c.solution == s && c.x0 == v.X0 && c.scale == v.Scale && c.width == v.Width && slices.Equal(c.drawn, drawn) {
+	} else if c.solution == s && c.x0 == v.X0 && c.scale == v.Scale && c.width == v.Width && slices.Equal(c.drawn, qs) {
 		return c.sampled[:len(qs)]
 	}
 	cs := grow(&c.sampled, len(qs))
 	sampleCurves(s, v, qs, cs, grow(&c.half, len(qs)))
-	c.solution, c.x0, c.scale, c.width, c.drawn = s, v.X0, v.Scale, v.Width, drawn
+	c.solution, c.x0, c.scale, c.width, c.drawn = s, v.X0, v.Scale, v.Width, slices.Clone(qs)
 	return cs
 }

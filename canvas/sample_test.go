@@ -13,7 +13,7 @@ import (
 // the other, each element's end included but where sampleElements leaves it
 // out as a repeat (a nodal quantity's end before the next element, a constant
 // quantity's end in an element narrower than a pixel).
-func sampledByAt(s *fem.Solution, v View, qs []quantity) []*curve {
+func sampledByAt(s *fem.Solution, v View, qs []fem.Quantity) []*curve {
 	cs := make([]*curve, len(qs))
 	for i := range cs {
 		cs[i] = &curve{}
@@ -35,7 +35,7 @@ func sampledByAt(s *fem.Solution, v View, qs []quantity) []*curve {
 			}
 			f := s.At(x, side)
 			for i, q := range qs {
-				vary := s.Varies(q.Quantity)
+				vary := s.Varies(q)
 				repeat := inner == 0 && j == 1 && (vary.Nodal && n < len(visible)-1 ||
 					vary.Degree == 0 && (e.End-e.Start)*v.Scale < 1)
 				if !repeat {
@@ -57,30 +57,30 @@ func sampledByAt(s *fem.Solution, v View, qs []quantity) []*curve {
 // Covers wide and narrow elements, both bar orders, a zoomed view and enough
 // elements for the two-goroutine read.
 func TestSampleCurvesMatchReadingEveryEnd(t *testing.T) {
-	var drawn []quantity
+	var drawn []fem.Quantity
 	for _, d := range diagramsList {
-		drawn = append(drawn, sampled(d.quantity))
+		drawn = append(drawn, d.quantity)
 	}
-	drawn = append(drawn, deflectionQuantity)
+	drawn = append(drawn, fem.QDeflection)
 	// A quantity that is neither nodal nor constant is read at both ends.
-	rotation := sampled(fem.QRotation)
+	rotation := fem.QRotation
 	for _, c := range []struct {
 		elements int
 		order    fem.ElementOrder
 		zoom     float32
-		qs       []quantity
+		qs       []fem.Quantity
 	}{
 		{12, fem.LinearBar, 1, drawn},
 		{3000, fem.LinearBar, 1, drawn},
 		{3000, fem.QuadraticBar, 1, drawn},
 		{3000, fem.LinearBar, 40, drawn},
-		{3000, fem.LinearBar, 1, []quantity{deflectionQuantity}},
-		{3000, fem.LinearBar, 1, append([]quantity{rotation}, drawn...)},
+		{3000, fem.LinearBar, 1, []fem.Quantity{fem.QDeflection}},
+		{3000, fem.LinearBar, 1, append([]fem.Quantity{rotation}, drawn...)},
 		{2 * parallelElements, fem.LinearBar, 1, drawn},
 		{2 * parallelElements, fem.QuadraticBar, 1, drawn},
 	} {
 		qs := c.qs
-		t.Run(fmt.Sprintf("%d elements, bar order %d, zoom %g, %s…", c.elements, c.order, c.zoom, qs[0].Quantity), func(t *testing.T) {
+		t.Run(fmt.Sprintf("%d elements, bar order %d, zoom %g, %s…", c.elements, c.order, c.zoom, qs[0]), func(t *testing.T) {
 			m := demoModel(c.elements)
 			m.Mesh.BarOrder = c.order
 			m.PointLoads[1].Axial = 60e3 // a varying axial force in the second segment
@@ -101,7 +101,7 @@ func TestSampleCurvesMatchReadingEveryEnd(t *testing.T) {
 				tol := 1e-9 * max(math.Abs(w.lo.value), math.Abs(w.hi.value))
 				near := func(a, b extreme) bool { return math.Abs(a.value-b.value) <= tol }
 				if g.n != w.n || !near(g.lo, w.lo) || !near(g.hi, w.hi) {
-					t.Errorf("%s: %d samples from %g to %g, want %d from %g to %g", q.Quantity, g.n, g.lo.value, g.hi.value, w.n, w.lo.value, w.hi.value)
+					t.Errorf("%s: %d samples from %g to %g, want %d from %g to %g", q, g.n, g.lo.value, g.hi.value, w.n, w.lo.value, w.hi.value)
 					continue
 				}
 				bad := 0
@@ -110,7 +110,7 @@ func TestSampleCurvesMatchReadingEveryEnd(t *testing.T) {
 					if a.n != b.n || a.first.x != b.first.x || a.last.x != b.last.x ||
 						!near(a.first, b.first) || !near(a.last, b.last) || !near(a.lo, b.lo) || !near(a.hi, b.hi) {
 						if bad++; bad <= 3 {
-							t.Errorf("%s, column %d: got %+v, want %+v", q.Quantity, k, a, b)
+							t.Errorf("%s, column %d: got %+v, want %+v", q, k, a, b)
 						}
 					}
 				}

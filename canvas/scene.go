@@ -37,10 +37,11 @@ const (
 	DistributedLoad         // Model.DistributedLoad[Index] as a whole: drag sideways to move
 	LoadVertex              // Model.DistributedLoad[Index].Points[Vertex]: drag up/down for intensity
 	CheckMark               // a marked check (Index is the caller's check index)
+	Element                 // Solution.Mesh.Elements[Index], in the nodal loads' strip
 )
 
 var refKindNames = [...]string{"none", "member", "member end", "segment", "support",
-	"point load", "distributed load", "load vertex", "check mark"}
+	"point load", "distributed load", "load vertex", "check mark", "element"}
 
 // String names the kind in plain words.
 func (k RefKind) String() string {

@@ -107,7 +107,7 @@ func buildSheet(in SheetInput) *Scene {
 	}
 	sh.y += 62
 
-	sh.modelTable(in.Input.Model, u)
+	sh.modelTable(in.Input.Model)
 
 	// Diagrams: the same Build as the screen, at a fixed size, drawn at
 	// diagramScale so its labels sit close to the size of the table text.
@@ -199,10 +199,10 @@ func (sh *sheet) list(title string, lines []string, c color.NRGBA) {
 // sheetRows caps each input table so the page holds.
 const sheetRows = 6
 
-func (sh *sheet) modelTable(m *fem.Model, u units.System) {
+func (sh *sheet) modelTable(m *fem.Model) {
 	sh.heading("Model")
 	xs := []float32{sheetEdge, sheetEdge + 70}
-	f := u.Format
+	f := sh.b.format
 	var rows [][2]string
 	for i, s := range m.Segments {
 		rows = append(rows, [2]string{fmt.Sprintf("segment %d", i+1), fmt.Sprintf("%s to %s; A %s, I %s, c %s; E %s %s",

@@ -19,8 +19,30 @@ func (b *builder) sketch(lay layoutBands) {
 	y := lay.memberY
 	l := m.Length()
 	x0, x1 := b.clampX(b.sx(0)), b.clampX(b.sx(l))
-	b.text("Member, supports and loads", 8, lay.top+6, titleSize, 0, 0, inkColour, true)
-	b.occupy(rect{0, lay.top, 220, lay.top + 24})
+	b.band = rect{0, lay.top, b.v.Width, lay.sketchBottom}
+	defer func() { b.band = rect{} }()
+	title := text1("Member, supports and loads", titleSize, inkColour, true, labelSpot{8, lay.top + 6, 0, 0})
+	title.plain = true
+	b.place(title)
+	if len(m.Segments) == 0 { // a new sketch: what to do first
+		b.place(text1("No member yet: drag along the drawing with the Member tool, or type a length under Properties.",
+			labelSize, faintColour, false, labelSpot{b.v.Width / 2, lay.memberY, 0.5, 0.5}))
+		return
+	}
+	// What must be read comes first, so the labels placed later avoid it.
+	if b.in.Unreliable {
+		b.place(text1("UNRELIABLE RESULTS: read the warnings", labelSize, problemColour, true, labelSpot{b.v.Width - 8, lay.top + 26, 1, 0}))
+	}
+	if b.in.Problem != "" {
+		defer b.problem(lay)()
+	}
+	if b.in.Dimensions {
+		b.scaleBar(lay.top)
+	}
+	var deflected *deflectedShape
+	if b.in.Overlays.DeformedShape && b.in.Solution != nil {
+		deflected = b.deflected(lay)
+	}
 
 	// Supports first: their boxes keep labels away from them.
 	for i, sp := range m.Supports {
@@ -29,12 +51,13 @@ func (b *builder) sketch(lay layoutBands) {
 	memberColour := b.colourFor(Ref{Kind: Member}, inkColour)
 	b.line(memberColour, memberWidth, Point{x0, y}, Point{x1, y})
 	b.handle(Ref{Kind: Member}, memberWidth/2, Point{x0, y}, Point{x1, y})
-	b.segments(y)
+	b.symbol(rect{x0, y - memberWidth/2, x1, y + memberWidth/2})
 	if b.in.Overlays.Nodes && b.in.Solution != nil {
 		b.nodeTicks(y, lay.top)
 	}
 	end := Point{b.sx(l), y}
 	b.circle(end, 4, white, b.colourFor(Ref{Kind: MemberEnd}, inkColour), 1.5)
+	b.symbol(rect{end.X - 5, end.Y - 5, end.X + 5, end.Y + 5})
 	b.handle(Ref{Kind: MemberEnd}, 6, end)
 	for _, h := range m.Hinges {
 		b.hinge(h, y)
@@ -44,24 +67,18 @@ func (b *builder) sketch(lay layoutBands) {
 	for i, p := range m.PointLoads {
 		b.pointLoad(i, p, y)
 	}
+	b.segments(y) // the names where the loads leave room
+	b.marks(lay.sketchBottom - 4)
 	// Fixed-place labels first, so the movable ones avoid them.
 	if b.in.Dimensions {
 		b.dimensions(y)
-		b.scaleBar(lay.top)
 	}
 	if b.in.Solution != nil {
 		b.reactions(y)
 	}
-	if b.in.Overlays.DeformedShape && b.in.Solution != nil {
-		b.deformed(lay)
+	if deflected != nil {
+		b.deformed(deflected)
 	}
-	if b.in.Problem != "" {
-		b.problem(lay)
-	}
-	if b.in.Unreliable {
-		b.text("UNRELIABLE RESULTS: read the warnings", b.v.Width-8, lay.top+26, labelSize, 1, 0, problemColour, true)
-	}
-	b.marks(lay.sketchBottom - 4)
 	b.line(faintColour, 0.75, Point{0, lay.sketchBottom}, Point{b.v.Width, lay.sketchBottom})
 }
 
@@ -83,6 +100,12 @@ func (b *builder) marks(y float32) {
 		}
 		b.polygon(c, white, 1, Point{x, y - 9}, Point{x + 6, y}, Point{x - 6, y})
 		b.handle(ref, 7, Point{x, y - 4})
+		b.symbol(rect{x - 6, y - 9, x + 6, y})
+		if mk.Name != "" {
+			at := Point{x, y - 4}
+			b.place(label{lines: []string{mk.Name}, size: smallSize, colour: c, at: at,
+				spots: []labelSpot{{x + 9, y - 4, 0, 0.5}, {x - 9, y - 4, 1, 0.5}, {x, y - 11, 0.5, 1}}})
+		}
 	}
 }
 
@@ -101,10 +124,15 @@ func (b *builder) segments(y float32) {
 		if sg.Material.Name != "" {
 			name += " " + sg.Material.Name
 		}
-		mid := b.sx((sg.Start + sg.End) / 2)
+		// Under the member (clear of the node ticks) or over it, in the
+		// middle or, where a load is there, a quarter in from either end.
+		var spots []labelSpot
+		for _, at := range []float64{0.5, 0.25, 0.75} {
+			x := b.sx(sg.Start + at*(sg.End-sg.Start))
+			spots = append(spots, labelSpot{x, y + 9, 0.5, 0}, labelSpot{x, y - 8, 0.5, 1})
+		}
 		c := b.colourFor(Ref{Kind: Segment, Index: i}, faintColour)
-		if r, ok := b.label(name, smallSize, c, false, false,
-			labelSpot{mid, y + 6, 0.5, 0}, labelSpot{mid, y - 8, 0.5, 1}); ok {
+		if r, ok := b.place(label{lines: []string{name}, size: smallSize, colour: c, optional: true, spots: spots}); ok {
 			b.clear = append(b.clear, r)
 			cy := (r.y0 + r.y1) / 2
 			b.handle(Ref{Kind: Segment, Index: i}, (r.y1-r.y0)/2, Point{r.x0, cy}, Point{r.x1, cy})
@@ -112,20 +140,25 @@ func (b *builder) segments(y float32) {
 	}
 }
 
-// nodeTicks marks the mesh nodes, at most one tick per pixel column: after
-// each tick the next is the first node at least two pixels on, found by
-// bisection, so the work grows with the width and not with the mesh.
+// nodeTicks marks the mesh nodes under the member, where no load arrow
+// hides them, at most one tick per pixel column: after each tick the next
+// is the first node at least two pixels on, found by bisection, so the
+// work grows with the width and not with the mesh.
 func (b *builder) nodeTicks(y, top float32) {
 	mesh := b.in.Solution.Mesh
 	xs := visibleNodes(mesh.X, b.v)
+	below := y + memberWidth/2
 	for i := 0; i < len(xs); {
 		px := b.sx(xs[i])
-		b.line(faintColour, 1, Point{px, y - 7}, Point{px, y - 3})
+		b.line(inkColour, 1, Point{px, below}, Point{px, below + 5})
 		rest := xs[i+1:]
 		i += 1 + sort.Search(len(rest), func(k int) bool { return b.sx(rest[k])-px >= 2 })
 	}
+	if len(xs) > 0 {
+		b.symbol(rect{b.sx(xs[0]), below, b.sx(xs[len(xs)-1]), below + 5})
+	}
 	n := len(mesh.Elements)
-	b.text(fmt.Sprintf("mesh: %d elements", n), 8, top+38, smallSize, 0, 0, faintColour, false)
+	b.place(text1(fmt.Sprintf("mesh: %d elements, nodes ticked under the member", n), smallSize, faintColour, false, labelSpot{8, top + 38, 0, 0}))
 }
 
 // visibleNodes returns the node positions inside the view.
@@ -206,7 +239,7 @@ func (b *builder) support(i int, sp fem.Support, y float32) {
 	}
 	b.springs(x, y, dir, elastic, c)
 	b.handle(ref, 16, Point{x, y + 14})
-	b.occupy(rect{x - 22, y - 20, x + 22, y + supportHeight + 4})
+	b.symbol(rect{x - 22, y - 20, x + 22, y + supportHeight + 4})
 	b.settlement(sp, x, y, c)
 }
 
@@ -241,8 +274,8 @@ func (b *builder) settlement(sp fem.Support, x, y float32, c color.NRGBA) {
 		}
 	}
 	if len(parts) > 0 {
-		b.label(strings.Join(parts, ", "), smallSize, c, false, true,
-			labelSpot{x + 32, y + 10, 0, 0.5}, labelSpot{x - 32, y + 10, 1, 0.5}, labelSpot{x + 32, y - 12, 0, 0.5})
+		b.place(label{lines: []string{strings.Join(parts, ", ")}, size: smallSize, colour: c, at: Point{x, y + 10},
+			spots: []labelSpot{{x + 32, y + 10, 0, 0.5}, {x - 32, y + 10, 1, 0.5}, {x + 32, y - 12, 0, 0.5}}})
 	}
 }
 
@@ -324,12 +357,14 @@ func (b *builder) pointLoad(i int, p fem.PointLoad, y float32) {
 			tip := Point{x, y - memberWidth/2 - 1}
 			tail := Point{x, tip.Y - arrowLength}
 			b.arrow(tail, tip, c, 2, 10)
+			b.symbol(rect{x - 5, tail.Y, x + 5, tip.Y})
 			b.pointLabel(b.format(units.Force, math.Abs(p.Transverse)), tail, 1)
 			b.handle(ref, 6, tail, tip)
 		} else {
 			tip := Point{x, y + memberWidth/2 + 1}
 			tail := Point{x, tip.Y + arrowLength}
 			b.arrow(tail, tip, c, 2, 10)
+			b.symbol(rect{x - 5, tip.Y, x + 5, tail.Y})
 			b.pointLabel(b.format(units.Force, p.Transverse), tail, 0)
 			b.handle(ref, 6, tail, tip)
 		}
@@ -343,15 +378,16 @@ func (b *builder) pointLoad(i int, p fem.PointLoad, y float32) {
 		tail := Point{x, ay}
 		tip := Point{x + dir*arrowLength*0.8, ay}
 		b.arrow(tail, tip, c, 2, 9)
-		b.label(b.format(units.Force, math.Abs(p.Axial)), smallSize, c, false, true,
-			labelSpot{tip.X + dir*3, ay, (1 - dir) / 2, 0.5}, labelSpot{(tail.X + tip.X) / 2, ay - 4, 0.5, 1})
+		b.symbol(rect{min(tail.X, tip.X), ay - 4, max(tail.X, tip.X), ay + 4})
+		b.place(label{lines: []string{b.format(units.Force, math.Abs(p.Axial))}, size: smallSize, colour: c, at: tip,
+			spots: []labelSpot{{tip.X + dir*3, ay, (1 - dir) / 2, 0.5}, {(tail.X + tip.X) / 2, ay - 4, 0.5, 1}}})
 		b.handle(ref, 6, tail, tip)
 	}
 	if p.Moment != 0 {
 		b.momentArrow(Point{x, y}, 16, p.Moment > 0, c)
-		b.label(b.format(units.Moment, math.Abs(p.Moment)), smallSize, c, false, true,
-			labelSpot{x + 20, y - 18, 0, 1}, labelSpot{x - 20, y - 18, 1, 1},
-			labelSpot{x, min(y-18, b.loadTop(p.X)-4), 0.5, 1})
+		b.symbol(rect{x - 18, y - 18, x + 18, y + 18})
+		b.place(label{lines: []string{b.format(units.Moment, math.Abs(p.Moment))}, size: smallSize, colour: c, at: Point{x, y - 18},
+			spots: []labelSpot{{x + 20, y - 18, 0, 1}, {x - 20, y - 18, 1, 1}, {x, min(y-18, b.loadTop(p.X)-4), 0.5, 1}}})
 		b.handle(ref, 16, Point{x, y})
 	}
 }
@@ -367,7 +403,7 @@ func (b *builder) pointLabel(s string, tail Point, ay float32) {
 	if top := b.loadTop(b.v.ToModelX(tail.X)); ay == 1 && top < tail.Y {
 		spots = append(spots, labelSpot{tail.X, top - 4, 0.5, 1})
 	}
-	b.label(s, smallSize, loadColour, false, true, spots...)
+	b.place(label{lines: []string{s}, size: smallSize, colour: loadColour, at: tail, spots: spots})
 }
 
 // loadTop is the highest screen y of the distributed loads drawn at x, or
@@ -465,8 +501,8 @@ func (b *builder) distributedLoads(lay layoutBands) {
 			if ay == 0 {
 				dy = 3
 			}
-			b.label(b.format(units.LineLoad, math.Abs(p.Intensity)), smallSize, c, false, true,
-				labelSpot{pk.X, pk.Y + dy, 0.5, ay}, labelSpot{pk.X + 4, pk.Y + dy, 0, ay}, labelSpot{pk.X - 4, pk.Y + dy, 1, ay})
+			b.place(label{lines: []string{b.format(units.LineLoad, math.Abs(p.Intensity))}, size: smallSize, colour: c, at: pk,
+				spots: []labelSpot{{pk.X, pk.Y + dy, 0.5, ay}, {pk.X + 4, pk.Y + dy, 0, ay}, {pk.X - 4, pk.Y + dy, 1, ay}}})
 		}
 		for j := range d.Points {
 			vp := outline[j+1]
@@ -506,7 +542,7 @@ func (b *builder) loadArrows(d fem.DistributedLoad, base float32, ordinate func(
 		}
 		if q < 0 {
 			b.arrow(Point{px, oy}, Point{px, base}, c, 1, 6)
-			b.occupy(rect{px - 3, oy, px + 3, base})
+			b.symbol(rect{px - 3, oy, px + 3, base})
 		} else {
 			b.arrow(Point{px, base + 2*memberWidth}, Point{px, base + memberWidth + 2}, c, 1, 6)
 		}
@@ -528,8 +564,10 @@ func intensityAt(pts []fem.LoadPoint, x float64) float64 {
 	return 0
 }
 
-// problem shows the solver's complaint in the sketch band.
-func (b *builder) problem(lay layoutBands) {
+// problem shows the solver's complaint in the sketch band: its lines now,
+// so later labels keep off them, and the box behind them when the
+// returned function is called, after the rest of the sketch.
+func (b *builder) problem(lay layoutBands) (box func()) {
 	lines := wrap(b.in.Problem, problemSize, true, b.v.Width-60)
 	h := TextHeight(problemSize)
 	y := lay.top + 30
@@ -541,11 +579,16 @@ func (b *builder) problem(lay layoutBands) {
 		wmax = max(wmax, textWidth(ln, problemSize, true))
 	}
 	cx := b.v.Width / 2
-	b.polygon(rgba(0xff, 0xee, 0xee, 0xf0), problemColour, 1.5,
-		Point{cx - wmax/2 - 10, y - 4}, Point{cx + wmax/2 + 10, y - 4},
-		Point{cx + wmax/2 + 10, y + h*float32(len(lines)) + 4}, Point{cx - wmax/2 - 10, y + h*float32(len(lines)) + 4})
-	for k, ln := range lines {
-		b.text(ln, cx, y+h*float32(k), problemSize, 0.5, 0, problemColour, true)
+	r := rect{cx - wmax/2 - 10, y - 4, cx + wmax/2 + 10, y + h*float32(len(lines)) + 4}
+	b.place(label{lines: lines, size: problemSize, colour: problemColour, bold: true, at: Point{cx, y},
+		spots: []labelSpot{{cx, y, 0.5, 0}}, plain: true})
+	// The box's margins keep labels off; its lines are placed already.
+	b.symbol(rect{r.x0, r.y0, r.x1, y})
+	b.symbol(rect{r.x0, r.y1 - 4, r.x1, r.y1})
+	b.symbol(rect{r.x0, r.y0, cx - wmax/2, r.y1})
+	b.symbol(rect{cx + wmax/2, r.y0, r.x1, r.y1})
+	return func() {
+		b.polygon(rgba(0xff, 0xee, 0xee, 0xf0), problemColour, 1.5, Point{r.x0, r.y0}, Point{r.x1, r.y0}, Point{r.x1, r.y1}, Point{r.x0, r.y1})
 	}
 }
 
@@ -563,8 +606,8 @@ func (b *builder) reactions(y float32) {
 		}
 		ly := y + supportHeight + 6
 		for _, p := range parts {
-			rr, _ := b.label(p, smallSize, supportColour, false, true,
-				labelSpot{x, ly, 0.5, 0}, labelSpot{x + 24, ly, 0, 0}, labelSpot{x - 24, ly, 1, 0})
+			rr, _ := b.place(label{lines: []string{p}, size: smallSize, colour: supportColour, at: Point{x, ly},
+				spots: []labelSpot{{x, ly, 0.5, 0}, {x + 24, ly, 0, 0}, {x - 24, ly, 1, 0}}})
 			ly = rr.y1 + 2
 		}
 	}
@@ -599,13 +642,16 @@ func (b *builder) dimensions(y float32) {
 func (b *builder) dimension(xa, xb float64, y float32, prefix string) {
 	pa, pb := b.sx(xa), b.sx(xb)
 	b.line(dimensionColour, 0.8, Point{b.clampX(pa), y}, Point{b.clampX(pb), y})
+	b.symbol(rect{b.clampX(pa), y - 0.5, b.clampX(pb), y + 0.5})
 	for _, p := range []float32{pa, pb} {
 		b.line(dimensionColour, 0.8, Point{p, y - 6}, Point{p, y + 6})
 		b.line(dimensionColour, 1.4, Point{p - 3, y + 3}, Point{p + 3, y - 3})
+		b.symbol(rect{p - 3, y - 4, p + 3, y + 4})
 	}
 	s := prefix + b.format(units.Position, xb-xa)
 	if textWidth(s, smallSize, false)+6 < pb-pa {
-		b.label(s, smallSize, dimensionColour, false, true, labelSpot{(pa + pb) / 2, y - 2, 0.5, 1})
+		b.place(label{lines: []string{s}, size: smallSize, colour: dimensionColour, at: Point{(pa + pb) / 2, y},
+			spots: []labelSpot{{(pa + pb) / 2, y - 2, 0.5, 1}}})
 	}
 }
 
@@ -640,18 +686,29 @@ func (b *builder) scaleBar(top float32) {
 	b.line(inkColour, 1, Point{x0, y - 4}, Point{x0, y + 4})
 	b.line(inkColour, 1, Point{x1, y - 4}, Point{x1, y + 4})
 	s := strconv.FormatFloat(b.u.ToDisplay(units.Position, length), 'g', -1, 64) + " " + b.u.Unit(units.Position).Symbol
-	r := b.text(s, (x0+x1)/2, y-3, smallSize, 0.5, 1, inkColour, false)
-	b.occupy(rect{min(x0, r.x0), r.y0, x1, y + 5})
+	b.symbol(rect{x0, y - 4, x1, y + 4})
+	l := text1(s, smallSize, inkColour, false, labelSpot{(x0 + x1) / 2, y - 5, 0.5, 1})
+	l.plain = true
+	b.place(l)
 }
 
-// deformed draws the magnified deflection over the member.
-func (b *builder) deformed(lay layoutBands) {
-	curve := b.deflection
-	// Labelled where the curve has zero slope, as the results table says,
-	// not at the nearest pixel column's sample.
-	peak := curve.peak()
+// deflectedShape is the magnified deflection: its line, and the label of
+// its peak to place once the fixed labels of the sketch are down.
+type deflectedShape struct {
+	pts  []Point
+	peak label
+}
+
+// deflected works out the deflected shape and marks its peak, beside the
+// exact solution's when shown; the line and the marks keep the labels
+// placed from now on clear. Nil when the member does not deflect. It sets
+// the scene's magnification.
+func (b *builder) deflected(lay layoutBands) *deflectedShape {
+	// The scale and the label come from where the curve has zero slope, as
+	// the results table finds the peak, not from a pixel column's sample.
+	peak := b.deflection.peak()
 	if peak.value == 0 {
-		return
+		return nil
 	}
 	band := float64(lay.sketchBottom - lay.top)
 	mag := b.in.Magnification
@@ -660,20 +717,34 @@ func (b *builder) deformed(lay layoutBands) {
 	}
 	b.s.Magnification = mag
 	pxPerM := mag * b.v.Scale
-	pts := curve.points(func(w float64) float32 { return lay.memberY - float32(w*pxPerM) })
-	for _, piece := range around(pts, b.clear, 1) {
+	toY := func(w float64) float32 { return lay.memberY - float32(w*pxPerM) }
+	b.place(text1(fmt.Sprintf("deflection × %s (FE, dashed)", trimFloat(mag)), smallSize, deformedColour, false, labelSpot{8, lay.top + 24, 0, 0}))
+	d := &deflectedShape{pts: b.deflection.points(toY)}
+	b.avoid(d.pts)
+	at := Point{b.sx(peak.x), toY(peak.value)}
+	b.marker(at, 2.5, deformedColour, false)
+	var exact *extreme
+	if e := b.in.Exact; e != nil {
+		lo, hi := exactExtremes(e, b.v, []fem.Quantity{fem.QDeflection}, []*curve{b.deflection})
+		exact = &hi[0]
+		if peak.value < 0 {
+			exact = &lo[0]
+		}
+		if b.exact() != nil {
+			b.marker(Point{b.sx(exact.x), toY(exact.value)}, 3, exactColour, true)
+		}
+	}
+	d.peak = b.extremeLabel("w ", units.Deflection, peak, exact, at, peak.value > 0, deformedColour)
+	return d
+}
+
+// deformed draws the deflected line, broken around the segment names, and
+// labels its peak.
+func (b *builder) deformed(d *deflectedShape) {
+	for _, piece := range around(d.pts, b.clear, 1) {
 		b.s.Items = append(b.s.Items, Item{Kind: Polyline, Points: piece, Stroke: deformedColour, StrokeWidth: 2, Dash: true})
 	}
-	b.text(fmt.Sprintf("deflection × %s", trimFloat(mag)), 8, lay.top+24, smallSize, 0, 0, deformedColour, false)
-	px := b.sx(peak.x)
-	py := lay.memberY - float32(peak.value*pxPerM)
-	ay := float32(1)
-	if peak.value < 0 {
-		ay = 0
-	}
-	s := fmt.Sprintf("w %s at %s", b.format(units.Deflection, peak.value), b.format(units.Position, peak.x))
-	b.label(s, smallSize, deformedColour, false, true,
-		labelSpot{px, py + 4 - 8*ay, 0.5, ay}, labelSpot{px + 8, py + 4 - 8*ay, 0, ay}, labelSpot{px - 8, py + 4 - 8*ay, 1, ay})
+	b.place(d.peak)
 }
 
 // trimFloat prints a magnification without trailing zeros.
@@ -697,5 +768,5 @@ func (b *builder) hinge(h fem.Hinge, y float32) {
 		}
 		b.line(inkColour, 1.1, pts...)
 	}
-	b.occupy(rect{x - 8, y - 24, x + 8, y + 7})
+	b.symbol(rect{x - 8, y - 24, x + 8, y + 7})
 }

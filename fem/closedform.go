@@ -370,3 +370,31 @@ func (v *Interval) RangeLess(q Quantity, a, b float64) (lo, hi Point) {
 	l, h := sampledRange(n, func(i int) float64 { return g(float64(i) / float64(n)) }, g, exactSteps)
 	return Point{v.X(l.xi), l.value}, Point{v.X(h.xi), h.value}
 }
+
+// closedGap is ElementView.Gap where the exact solution on the element is
+// read in closed form: the largest |FE − exact| of q by sampling both (the
+// combined stress on the fibre the finite element solution takes), where
+// it is above above.
+func (v *ElementView) closedGap(q Quantity, above float64) (Point, bool) {
+	fe, ex := &v.FE, &v.Exact
+	gap := func(xi float64) float64 {
+		var a, b Fields
+		fe.At(xi, &a)
+		ex.closedAt(xi, &b)
+		if q == QCombinedStress {
+			sign := fibreSign(a.AxialStress, a.BendingStress)
+			return (a.AxialStress - b.AxialStress) + sign*(a.BendingStress-b.BendingStress)
+		}
+		return q.Of(&a) - q.Of(&b)
+	}
+	n := ex.closedPieces()
+	lo, hi := sampledRange(n, func(i int) float64 { return gap(float64(i) / float64(n)) }, gap, errorSteps)
+	e := hi
+	if -lo.value > hi.value {
+		e = extremum{lo.xi, -lo.value}
+	}
+	if !(e.value > above) {
+		return Point{}, false
+	}
+	return Point{X: fe.X(e.xi), Value: e.value}, true
+}

@@ -38,6 +38,8 @@ var Products = []Product{
 	{"sheet-pdf", "pdf", "calculation sheet as PDF"},
 	{"sheet-png", "png", "calculation sheet as PNG"},
 	{"csv", "csv", "results table (CSV)"},
+	{"multiples-png", "png", "small multiples, 1 to 8 elements per stretch, as PNG"},
+	{"multiples-pdf", "pdf", "small multiples, 1 to 8 elements per stretch, as PDF"},
 }
 
 // ProductExt returns the file extension of the product name, or false for
@@ -212,7 +214,7 @@ func marks(fs []analysis.Finding) []canvas.Mark {
 	var out []canvas.Mark
 	for i, f := range fs {
 		if f.Marked {
-			out = append(out, canvas.Mark{X: f.At, Index: i, Severe: f.Severity == analysis.Fail})
+			out = append(out, canvas.Mark{X: f.At, Index: i, Severe: f.Severity == analysis.Fail, Name: f.Status + ": " + f.Name})
 		}
 	}
 	return out
@@ -251,6 +253,8 @@ func Write(w io.Writer, src Source, product string, opts Options) error {
 			sheet.Mesh = analysis.MeshChoice(a.Summary())
 		}
 		return canvas.WriteSheet(w, strings.TrimPrefix(product, "sheet-"), sheet)
+	case "multiples-png", "multiples-pdf":
+		return writeMultiples(context.Background(), w, src, strings.TrimPrefix(product, "multiples-"), opts)
 	case "csv":
 		if in.Solution == nil {
 			return fmt.Errorf("there are no results to tabulate: %s", in.Problem)

@@ -24,7 +24,8 @@ func demo(t *testing.T) *storage.Project {
 // Every product starts the way its format requires; an unknown one is
 // refused with the list of products.
 func TestExportEveryProduct(t *testing.T) {
-	starts := map[string]string{"png": "\x89PNG", "svg": "<?xml", "pdf": "%PDF", "sheet-pdf": "%PDF", "sheet-png": "\x89PNG", "csv": "# Stave results."}
+	starts := map[string]string{"png": "\x89PNG", "svg": "<?xml", "pdf": "%PDF", "sheet-pdf": "%PDF", "sheet-png": "\x89PNG", "csv": "# Stave results.",
+		"multiples-png": "\x89PNG", "multiples-pdf": "%PDF"}
 	for _, p := range Products {
 		var buf bytes.Buffer
 		if _, err := Export(context.Background(), &buf, demo(t), p.Name, Options{}); err != nil {

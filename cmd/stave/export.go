@@ -24,6 +24,8 @@ func exportCommand(args []string, stdout io.Writer) error {
 	fs := newFlagSet("export")
 	out := fs.String("out", "", "output file: NAME.png, NAME.svg, NAME.pdf or NAME.csv")
 	sheet := fs.Bool("sheet", false, "write the one-page calculation sheet (with --out NAME.pdf or NAME.png)")
+	multiples := fs.Bool("multiples", false, "write the member on 1, 2, 4 and 8 elements per stretch, one drawing under the other (with --out NAME.png or NAME.pdf)")
+	elements := fs.Int("elements", 0, "solve on N elements instead of the file's mesh (spread over the stretches by length)")
 	dpi := fs.Float64("dpi", 0, "pixel density of PNG output (default 96)")
 	width := fs.Float64("width", 0, "drawing width in points (default 1200)")
 	height := fs.Float64("height", 0, "drawing height in points (default 800)")
@@ -43,6 +45,15 @@ func exportCommand(args []string, stdout io.Writer) error {
 	kind, err := exportKind(*out, *sheet)
 	if err != nil {
 		return err
+	}
+	if *multiples {
+		if *sheet || (kind != "png" && kind != "pdf") {
+			return usageError{"--multiples writes a drawing: use it with --out NAME.png or NAME.pdf, without --sheet"}
+		}
+		kind = "multiples-" + kind
+	}
+	if set(fs, "elements") && *elements < 1 {
+		return usageError{fmt.Sprintf("--elements %d: give a positive number of elements", *elements)}
 	}
 	opts := report.Options{Width: float32(*width), Height: float32(*height), DPI: *dpi}
 	if set(fs, "points") {
@@ -67,6 +78,9 @@ func exportCommand(args []string, stdout io.Writer) error {
 	}
 	if opts.Show, err = showFlag(&p.Model, *show); err != nil {
 		return err
+	}
+	if set(fs, "elements") {
+		p.Model.Mesh.Elements, p.Model.Mesh.MaxElementLength = *elements, 0
 	}
 	var src report.Source
 	n, err := writeExport(*out, func(w io.Writer) error {

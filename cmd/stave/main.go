@@ -4,7 +4,7 @@
 // file it opens that file. The subcommands work without a display:
 //
 //	stave solve [--json] [--units SI|US] [--show NAME] FILE
-//	stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet] [--dpi N] [--points N] [--units SI|US] [--show NAME]
+//	stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet | --multiples] [--elements N] [--dpi N] [--points N] [--units SI|US] [--show NAME]
 //	stave converge [--json] [--max N] [--target E] FILE
 //	stave check [--json | --csv] [--workers N] FILE... | DIR
 //	stave bench [--json]
@@ -81,8 +81,8 @@ var helpShown = errors.New("help shown")
 const usage = `usage:
   stave [FILE]                         open the window (on the demo model without FILE)
   stave solve [--json] [--units SI|US] [--show NAME] FILE
-  stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet] [--dpi N]
-               [--points N] [--units SI|US] [--show NAME]
+  stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet | --multiples]
+               [--elements N] [--dpi N] [--points N] [--units SI|US] [--show NAME]
   stave converge [--json] [--max N] [--target E] FILE
   stave check [--json | --csv] [--workers N] FILE... | DIR
   stave bench [--json]

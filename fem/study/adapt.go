@@ -48,7 +48,7 @@ func Adapt(ctx context.Context, m *fem.Model, target float64, maxElements int) (
 	if start := 2 * (len(keys) - 1); maxElements < start {
 		return Adaptive{}, fmt.Errorf("adaptive refinement starts from 2 elements per stretch (%d elements here); allow at least that many, got %d", start, maxElements)
 	}
-	nodes := subdivide(keys, 2)
+	nodes := Subdivide(keys, 2)
 	var out Adaptive
 	for {
 		if err := ctx.Err(); err != nil {

@@ -99,7 +99,7 @@ func Convergence(ctx context.Context, m *fem.Model, maxPerStretch int) (Table, e
 		if err := ctx.Err(); err != nil {
 			return Table{}, err
 		}
-		s, err := solveOn(m, subdivide(keys, k))
+		s, err := solveOn(m, Subdivide(keys, k))
 		if err != nil {
 			return Table{}, fmt.Errorf("convergence study, %d elements per stretch: %w", k, err)
 		}
@@ -198,8 +198,9 @@ func prepare(m *fem.Model, what string) (*fem.Exact, []float64, error) {
 	return exact, fem.KeyPoints(m), nil
 }
 
-// subdivide splits every interval of nodes into k equal parts.
-func subdivide(nodes []float64, k int) []float64 {
+// Subdivide splits every interval of nodes into k equal parts: the nodes of
+// a mesh of k elements on every stretch between key points.
+func Subdivide(nodes []float64, k int) []float64 {
 	out := make([]float64, 0, (len(nodes)-1)*k+1)
 	out = append(out, nodes[0])
 	for i := 1; i < len(nodes); i++ {

@@ -1,0 +1,231 @@
+package canvas
+
+import (
+	"image/color"
+	"sort"
+)
+
+// The label placer. Every text of a drawing goes through place: it tries
+// the label's own spots around the thing it names, then rings farther out
+// with a leader line back to it, and takes only a box that overlaps no
+// placed label, no symbol and no marked extreme. Curves are a softer
+// obstacle: a spot clear of them is taken before one that crosses them.
+// What place refuses is never drawn on top of something else.
+
+// boxKind is what an occupied box holds.
+type boxKind int
+
+const (
+	labelBox  boxKind = iota // a placed label
+	symbolBox                // a drawn symbol: support, arrow, swatch, the member
+	markerBox                // a marked point of a curve: an extreme or the largest gap
+)
+
+// box is an occupied part of the scene.
+type box struct {
+	rect
+	kind boxKind
+}
+
+// rect is a text or symbol box.
+type rect struct{ x0, y0, x1, y1 float32 }
+
+func (r rect) overlaps(o rect) bool {
+	return r.x0 < o.x1 && o.x0 < r.x1 && r.y0 < o.y1 && o.y0 < r.y1
+}
+
+// grown is r grown by dx left and right and dy above and below.
+func (r rect) grown(dx, dy float32) rect { return rect{r.x0 - dx, r.y0 - dy, r.x1 + dx, r.y1 + dy} }
+
+// label is one text for place.
+type label struct {
+	lines  []string
+	size   float32
+	colour color.NRGBA
+	bold   bool
+	// at is the point the label names: where a leader line starts when the
+	// label has to move away from its spots.
+	at Point
+	// spots are the places to try first, in order of preference.
+	spots []labelSpot
+	// optional labels are left out when none of their spots is free;
+	// others move farther out, with a leader.
+	optional bool
+	// plain labels go without the light backing that keeps a label readable
+	// over hatching and fills.
+	plain bool
+	// compact is the label in one line, tried where lines find no place.
+	compact string
+}
+
+// labelSpot puts a label's box with the point (ax, ay) of it, in fractions
+// of its width and height from the top-left corner, at (x, y).
+type labelSpot struct{ x, y, ax, ay float32 }
+
+// text1 is a one-line label at a single spot, also its anchor.
+func text1(s string, size float32, c color.NRGBA, bold bool, spot labelSpot) label {
+	return label{lines: []string{s}, size: size, colour: c, bold: bold, at: Point{spot.x, spot.y}, spots: []labelSpot{spot}}
+}
+
+// ringSteps are the distances, px, of the rings of spots tried around a
+// label's point when its own spots are taken; the first nearRings of them
+// are tried before a spot of the label's own that crosses a curve.
+var ringSteps = []float32{10, 18, 28, 40, 56, 76, 100}
+
+const nearRings = 5
+
+// ringDirections are the directions of a ring's spots, from the label's
+// point, as unit steps: above, below, right, left, then the diagonals.
+var ringDirections = [][2]float32{{0, -1}, {0, 1}, {1, 0}, {-1, 0}, {1, -1}, {-1, -1}, {1, 1}, {-1, 1}}
+
+// place puts l where it overlaps nothing placed before, and where it can
+// clear of the curves too: at one of its spots, else (unless optional) on a
+// ring around l.at with a leader line. It returns the box and whether the
+// label was placed.
+func (b *builder) place(l label) (rect, bool) {
+	w, h := float32(0), TextHeight(l.size)*float32(len(l.lines))
+	for _, s := range l.lines {
+		w = max(w, textWidth(s, l.size, l.bold))
+	}
+	within := b.band // the band being drawn, else the scene
+	if within == (rect{}) {
+		within = rect{0, 0, b.v.Width, b.s.Height}
+	}
+	fit := func(s labelSpot) (rect, bool) {
+		if s.x < -20 || s.x > b.v.Width+20 {
+			return rect{}, false // the thing labelled is off screen
+		}
+		left := max(within.x0+2, min(within.x1-w-2, s.x-s.ax*w))
+		r := rect{left, s.y - s.ay*h, left + w, s.y - s.ay*h + h}
+		if r.y0 < within.y0 || r.y1 > within.y1 || r.x0 < within.x0 || r.x1 > within.x1 || !b.free(r) {
+			return rect{}, false
+		}
+		return r, true
+	}
+	// first is the first of spots that is free and, with clear, also
+	// clear of the curves.
+	first := func(spots []labelSpot, clear bool) (rect, labelSpot, bool) {
+		for _, s := range spots {
+			if r, ok := fit(s); ok && (!clear || !b.crossesCurve(r)) {
+				return r, s, true
+			}
+		}
+		return rect{}, labelSpot{}, false
+	}
+	// A spot of its own clear of the curves; a near ring clear of them, with
+	// a short leader; a spot of its own across a curve; any ring. An
+	// optional label takes its own spots or nothing.
+	if r, s, ok := first(l.spots, true); ok {
+		b.put(l, r, s.ax, false)
+		return r, true
+	}
+	if l.optional {
+		if r, s, ok := first(l.spots, false); ok {
+			b.put(l, r, s.ax, false)
+			return r, true
+		}
+		return rect{}, false
+	}
+	rings := make([][]labelSpot, len(ringSteps))
+	for k, d := range ringSteps {
+		for _, dir := range ringDirections {
+			rings[k] = append(rings[k], labelSpot{l.at.X + d*dir[0], l.at.Y + d*dir[1], (1 - dir[0]) / 2, (1 - dir[1]) / 2})
+		}
+	}
+	for k := range nearRings {
+		if r, s, ok := first(rings[k], true); ok {
+			b.put(l, r, s.ax, true)
+			return r, true
+		}
+	}
+	if r, s, ok := first(l.spots, false); ok {
+		b.put(l, r, s.ax, false)
+		return r, true
+	}
+	for _, ring := range rings {
+		if r, s, ok := first(ring, false); ok {
+			b.put(l, r, s.ax, true)
+			return r, true
+		}
+	}
+	if l.compact != "" && len(l.lines) > 1 {
+		l.lines, l.compact = []string{l.compact}, ""
+		return b.place(l)
+	}
+	return rect{}, false
+}
+
+// free reports whether r, with a little space around it, overlaps no box.
+func (b *builder) free(r rect) bool {
+	padded := r.grown(3, 1)
+	for _, o := range b.boxes {
+		if padded.overlaps(o.rect) {
+			return false
+		}
+	}
+	return true
+}
+
+// crossesCurve reports whether any curve registered with avoid runs through r.
+func (b *builder) crossesCurve(r rect) bool {
+	box := []rect{r}
+	for _, pts := range b.curves {
+		// The curves run left to right: start at the first point past r's left edge.
+		k := sort.Search(len(pts), func(i int) bool { return pts[i].X >= r.x0 })
+		for i := max(k-1, 0); i+1 < len(pts) && pts[i].X <= r.x1; i++ {
+			p, q := pts[i], pts[i+1]
+			if max(p.Y, q.Y) < r.y0 || min(p.Y, q.Y) > r.y1 {
+				continue // wholly above or below: most of a curve's segments
+			}
+			if len(insideSpans(p, q, box, 0)) > 0 {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// put draws l in r, its lines aligned as ax says, with a leader line from
+// l.at when it was moved away from its spots.
+func (b *builder) put(l label, r rect, ax float32, leader bool) {
+	b.boxes = append(b.boxes, box{r, labelBox})
+	if leader {
+		end := Point{max(r.x0, min(r.x1, l.at.X)), max(r.y0, min(r.y1, l.at.Y))}
+		b.leaders = append(b.leaders, Item{Kind: Polyline, Points: []Point{l.at, end}, Stroke: withAlpha(l.colour, 0xa0), StrokeWidth: 0.8})
+	}
+	if !l.plain {
+		b.backings = append(b.backings, Item{Kind: Polygon, Fill: rgba(0xff, 0xff, 0xff, 0xe6),
+			Points: []Point{{r.x0 - 1, r.y0 + 1}, {r.x1 + 1, r.y0 + 1}, {r.x1 + 1, r.y1 - 1}, {r.x0 - 1, r.y1 - 1}}})
+	}
+	lh := TextHeight(l.size)
+	for i, s := range l.lines {
+		x := r.x0 + ax*(r.x1-r.x0)
+		b.text(s, x, r.y0+float32(i)*lh, l.size, ax, 0, l.colour, l.bold)
+	}
+}
+
+// symbol keeps labels off r, a drawn symbol.
+func (b *builder) symbol(r rect) { b.boxes = append(b.boxes, box{r, symbolBox}) }
+
+// marker draws a dot of radius r at p, a marked point of a curve, and keeps
+// labels off it; hollow draws a ring in c instead. A point off the view
+// (zoomed in elsewhere) is not drawn.
+func (b *builder) marker(p Point, r float32, c color.NRGBA, hollow bool) {
+	if p.X < -r || p.X > b.v.Width+r {
+		return
+	}
+	if hollow {
+		b.circle(p, r, color.NRGBA{}, c, 1.5)
+	} else {
+		b.circle(p, r, c, color.NRGBA{}, 0)
+	}
+	b.boxes = append(b.boxes, box{rect{p.X - r, p.Y - r, p.X + r, p.Y + r}, markerBox})
+}
+
+// avoid asks labels to keep clear of the curve pts, which runs left to
+// right, where they can.
+func (b *builder) avoid(pts []Point) {
+	if len(pts) > 1 {
+		b.curves = append(b.curves, pts)
+	}
+}

@@ -1,0 +1,167 @@
+package fem_test
+
+import (
+	"math"
+	"testing"
+
+	"stave/fem"
+)
+
+// beamOn is a simply supported steel beam of length l on n elements per
+// metre of load, under the distributed loads given.
+func beamOn(l float64, n int, order fem.ElementOrder, loads ...fem.DistributedLoad) *fem.Model {
+	return &fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: l,
+			Section:  fem.Section{Area: 4e-3, SecondMoment: 8e-6, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: 200e9, Density: 7850}}},
+		Supports:        []fem.Support{{X: 0, Kind: fem.Pinned}, {X: l, Kind: fem.Roller}},
+		DistributedLoad: loads,
+		Mesh:            fem.MeshSettings{Elements: n, BarOrder: order},
+	}
+}
+
+func uniform(d fem.Dof, l, q float64) fem.DistributedLoad {
+	return fem.DistributedLoad{Direction: d, Points: []fem.LoadPoint{{X: 0, Intensity: q}, {X: l, Intensity: q}}}
+}
+
+func nodalLoads(t *testing.T, m *fem.Model) *fem.NodalLoads {
+	t.Helper()
+	mesh, err := fem.BuildMesh(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	nl, err := fem.NodalLoadsOn(m, mesh)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return nl
+}
+
+func near(a, b, scale float64) bool { return math.Abs(a-b) <= 1e-12*scale }
+
+// Each element's vector and each node's sum against closed forms, for line
+// loads whose fixed-end forces the beam tables give.
+func TestNodalLoadsClosedForms(t *testing.T) {
+	const q, l = -10e3, 4.0 // N/m, m
+	const h = l / 4         // the uniform case's elements
+	for _, c := range []struct {
+		name    string
+		m       *fem.Model
+		element [4]float64 // every element's (w₁, θ₁, w₂, θ₂) vector, N and N·m
+		lumped  float64    // its lumped force at each end, N
+		// force and moment are the sums Σ F and Σ (x·F + M) of the nodal
+		// loads, consistent and lumped: N and N·m about x = 0.
+		force, moment, lumpedMoment float64
+		interior                    float64 // the consistent force at an interior node, N
+	}{
+		// Uniform load q on elements of length h: qh/2 at each node and
+		// moments ±qh²/12 (fixed-end forces, beam tables, from memory);
+		// interior nodes take qh and no moment.
+		{"uniform q, 4 elements", beamOn(l, 4, 0, uniform(fem.Transverse, l, q)),
+			[4]float64{q * h / 2, q * h * h / 12, q * h / 2, -q * h * h / 12}, q * h / 2,
+			q * l, q * l * l / 2, q * l * l / 2, q * h},
+		// A load rising linearly from 0 to q over one element of length L:
+		// 3qL/20 and 7qL/20, moments qL²/30 and −qL²/20 (fixed-end forces of
+		// a triangular load, beam tables, from memory). Lumping puts qL/4 on
+		// each node, whose moment about the start, qL²/4, is not the
+		// load's, qL²/3: the consistent vector keeps it.
+		{"triangular load on one element", beamOn(l, 1, 0, fem.DistributedLoad{Direction: fem.Transverse,
+			Points: []fem.LoadPoint{{X: 0, Intensity: 0}, {X: l, Intensity: q}}}),
+			[4]float64{3 * q * l / 20, q * l * l / 30, 7 * q * l / 20, -q * l * l / 20}, q * l / 4,
+			q * l / 2, q * l * l / 3, q * l * l / 4, 0},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			c.m.Segments[0].Material.Density = 0 // the line load alone
+			nl := nodalLoads(t, c.m)
+			scale := math.Abs(q) * l * l
+			for i, e := range nl.Elements {
+				for k := range c.element {
+					if !near(e.Beam[k], c.element[k], scale) {
+						t.Errorf("element %d: beam vector %v, want %v", i, e.Beam, c.element)
+						break
+					}
+				}
+				if !near(e.Lumped[1], c.lumped, scale) {
+					t.Errorf("element %d: lumped %g at each end, want %g", i, e.Lumped[1], c.lumped)
+				}
+			}
+			var force, moment, lumpedMoment float64
+			for i, nd := range nl.Nodes {
+				force += nd.Consistent[fem.Transverse]
+				moment += nd.X*nd.Consistent[fem.Transverse] + nd.Consistent[fem.Rotation]
+				lumpedMoment += nd.X * nd.Lumped[fem.Transverse]
+				if nd.Lumped[fem.Rotation] != 0 {
+					t.Errorf("lumping put a moment %g on the node at %g m", nd.Lumped[fem.Rotation], nd.X)
+				}
+				if i > 0 && i < len(nl.Nodes)-1 && (!near(nd.Consistent[fem.Transverse], c.interior, scale) || !near(nd.Consistent[fem.Rotation], 0, scale)) {
+					t.Errorf("node at %g m: %v, want %g and no moment", nd.X, nd.Consistent, c.interior)
+				}
+			}
+			// Consistent loads have the load's resultant force and moment:
+			// the shape functions sum to 1 and reproduce x (rigid motions).
+			if !near(force, c.force, scale) || !near(nl.Resultant[fem.Transverse], c.force, scale) {
+				t.Errorf("consistent nodal forces sum to %g, resultant %g, want %g", force, nl.Resultant[fem.Transverse], c.force)
+			}
+			if !near(moment, c.moment, scale) || !near(nl.Resultant[2], c.moment, scale) {
+				t.Errorf("consistent nodal loads have moment %g about x = 0, resultant %g, want %g", moment, nl.Resultant[2], c.moment)
+			}
+			if !near(lumpedMoment, c.lumpedMoment, scale) {
+				t.Errorf("lumped loads have moment %g about x = 0, want %g", lumpedMoment, c.lumpedMoment)
+			}
+			if got, want := [2][3]float64{nl.Consistent, nl.Lumped}, [2][3]float64{{0, c.force, c.moment}, {0, c.force, c.lumpedMoment}}; !near(got[0][1], want[0][1], scale) ||
+				!near(got[0][2], want[0][2], scale) || !near(got[1][1], want[1][1], scale) || !near(got[1][2], want[1][2], scale) {
+				t.Errorf("sums (consistent, lumped) %v, want %v", got, want)
+			}
+		})
+	}
+}
+
+// Self-weight along the axis on linear and quadratic bars: ph/2 at each end
+// of a linear bar, ph/6, 2ph/3, ph/6 on a quadratic one (Simpson's weights,
+// the quadratic shape functions' integrals; from memory); the sums are the
+// weight ρ·A·g·L.
+func TestNodalLoadsSelfWeightOnBars(t *testing.T) {
+	const l, g = 4.0, fem.StandardGravity
+	for _, order := range []fem.ElementOrder{fem.LinearBar, fem.QuadraticBar} {
+		m := beamOn(l, 5, order)
+		m.Supports = []fem.Support{{X: 0, Kind: fem.Fixed}}
+		m.Gravity = [2]float64{g, 0}
+		nl := nodalLoads(t, m)
+		p := 7850 * 4e-3 * g // N/m
+		h := l / 5
+		weight := p * l
+		sum := 0.0
+		for i, e := range nl.Elements {
+			want := [3]float64{p * h / 2, 0, p * h / 2}
+			if order == fem.QuadraticBar {
+				want = [3]float64{p * h / 6, 2 * p * h / 3, p * h / 6}
+			}
+			if got := [3]float64{e.Bar[0], e.BarMiddle, e.Bar[1]}; !near(got[0], want[0], weight) || !near(got[1], want[1], weight) || !near(got[2], want[2], weight) {
+				t.Errorf("%s, element %d: bar vector (start, middle, end) %v, want %v", nl.Bar, i, got, want)
+			}
+			if !near(e.Lumped[0], p*h/2, weight) {
+				t.Errorf("%s, element %d: lumped %g at each end, want ph/2 = %g", nl.Bar, i, e.Lumped[0], p*h/2)
+			}
+			sum += e.BarMiddle
+		}
+		for _, nd := range nl.Nodes {
+			sum += nd.Consistent[fem.Axial]
+		}
+		if !near(sum, weight, weight) || !near(nl.Resultant[fem.Axial], weight, weight) || !near(nl.Consistent[fem.Axial], weight, weight) {
+			t.Errorf("%s: nodal forces sum to %g, resultant %g, the weight is %g", nl.Bar, sum, nl.Resultant[fem.Axial], weight)
+		}
+	}
+}
+
+// A mesh that misses a key point is refused with a message, not answered.
+func TestNodalLoadsNeedTheKeyPoints(t *testing.T) {
+	m := beamOn(4, 2, 0, fem.DistributedLoad{Direction: fem.Transverse,
+		Points: []fem.LoadPoint{{X: 0, Intensity: -1e3}, {X: 1.5, Intensity: -2e3}}})
+	mesh, err := fem.MeshFromNodes(&fem.Model{Segments: m.Segments, Supports: m.Supports}, []float64{0, 2, 4})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := fem.NodalLoadsOn(m, mesh); err == nil {
+		t.Error("a mesh without a node at the load's end at 1.5 m was accepted")
+	}
+}
