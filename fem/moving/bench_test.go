@@ -1,0 +1,79 @@
+package moving
+
+import (
+	"syscall"
+	"testing"
+	"time"
+
+	"stave/fem"
+)
+
+// cpuTime is the processor time the process has used, user and system:
+// on a machine others share, wall time measures them too.
+func cpuTime(b *testing.B) time.Duration {
+	var u syscall.Rusage
+	if err := syscall.Getrusage(syscall.RUSAGE_SELF, &u); err != nil {
+		b.Fatal(err)
+	}
+	return time.Duration(u.Utime.Nano() + u.Stime.Nano())
+}
+
+// benchmarkTrain is the case the speed target names: a four-axle train
+// over 2,000 positions on a beam of 10,000 elements, the envelope taken at
+// every node. The beam is two continuous spans of 15 m (invented), the
+// train an invented four-axle vehicle 6.6 m long.
+func benchmarkTrain(b *testing.B, d Direction) {
+	m := beam(30, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: 15, Kind: fem.Roller}, fem.Support{X: 30, Kind: fem.Roller})
+	m.Mesh = fem.MeshSettings{Elements: 10000}
+	p, err := fem.Prepare(m)
+	if err != nil {
+		b.Fatal(err)
+	}
+	mesh := p.Mesh()
+	in, err := New(p)
+	if err != nil {
+		b.Fatal(err)
+	}
+	tr := &Train{Axles: []Axle{{Load: 60e3}, {Load: 60e3, Spacing: 1.2}, {Load: 90e3, Spacing: 4.2}, {Load: 90e3, Spacing: 1.2}}, Direction: d}
+	tr.Step = (30 - tr.Length()) / 1999
+	stations := Stations(mesh)
+	if len(stations) != 10001 {
+		b.Fatalf("%d stations, want the 10,001 nodes", len(stations))
+	}
+	b.ResetTimer()
+	start := cpuTime(b)
+	defer func() { b.ReportMetric(float64(cpuTime(b)-start)/1e6/float64(b.N), "cpu-ms/op") }()
+	for range b.N {
+		e, err := in.Envelope(tr, mesh, stations)
+		if err != nil {
+			b.Fatal(err)
+		}
+		if e.Positions != 2000 {
+			b.Fatalf("%d positions, want 2,000", e.Positions)
+		}
+	}
+}
+
+func BenchmarkEnvelopeFourAxles2000Positions10000Elements(b *testing.B) {
+	benchmarkTrain(b, Forward)
+}
+
+// Both ways: 4,000 positions.
+func BenchmarkEnvelopeFourAxlesBothWays(b *testing.B) {
+	benchmarkTrain(b, BothWays)
+}
+
+// Setting up the influence lines of the same member: the two sweeps.
+func BenchmarkNewInfluence(b *testing.B) {
+	m := beam(30, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: 15, Kind: fem.Roller}, fem.Support{X: 30, Kind: fem.Roller})
+	m.Mesh = fem.MeshSettings{Elements: 10000}
+	for range b.N {
+		p, err := fem.Prepare(m)
+		if err != nil {
+			b.Fatal(err)
+		}
+		if _, err := New(p); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
