@@ -260,19 +260,19 @@ type placedAxle struct{ offset, load float64 }
 // run is one direction of a train's positions: fronts s0 + k·step for
 // k < n, numbered first + k in the envelope.
 type run struct {
-	direction   Direction
-	s0, step    float64
-	n           int
-	first       int32
-	axles       []placedAxle
-	uniform     bool
-	q, u0, u1   float64 // the uniform load, N/m down, from front + u0 to front + u1
+	direction Direction
+	s0, step  float64
+	n         int
+	first     int32
+	axles     []placedAxle
+	uniform   bool
+	q, u0, u1 float64 // the uniform load, N/m down, from front + u0 to front + u1
 	// Scratch of scan, kept between calls; fixed are the fronts at which
 	// an axle or an end of the uniform load passes a key point (setKeys).
 	breaks, fixed, moving, offsets, keys []float64
 	candidates, places                   []int
 	axleTerms, uniformTerms              []poly
-	tolerance   float64 // distance within which an axle stands on a point, m
+	tolerance                            float64 // distance within which an axle stands on a point, m
 }
 
 // runs are t's positions on a member of length L with the given step (0
