@@ -421,6 +421,7 @@ func (r *reader) project(top *fields) *Project {
 		weight.finish()
 	}
 	p.Model.TemperatureChange = top.number("temperature_change", "K", false)
+	p.Trains = r.trains(top)
 
 	mesh := top.object("mesh", true, `"mesh": {"elements": ...}`)
 	p.Model.Mesh = fem.MeshSettings{

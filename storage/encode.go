@@ -31,6 +31,7 @@ type (
 		Loads             []any           `json:"loads,omitempty"`
 		SelfWeight        *fileGravity    `json:"self_weight,omitempty"`
 		TemperatureChange number          `json:"temperature_change,omitempty"`
+		Trains            []fileTrain     `json:"trains,omitempty"`
 		Mesh              fileMesh        `json:"mesh"`
 		View              fileView        `json:"view"`
 	}
@@ -309,6 +310,7 @@ func (c *converter) toFile(p *Project) fileProject {
 		f.Supports[i] = fs
 	}
 	f.Loads = c.loads(p)
+	f.Trains = c.trains(p.Trains)
 	if m.Gravity != [2]float64{} {
 		f.SelfWeight = &fileGravity{X: c.num("self_weight.gravity_x", m.Gravity[0]), Y: c.num("self_weight.gravity_y", m.Gravity[1])}
 	}

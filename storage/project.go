@@ -1,6 +1,9 @@
 package storage
 
-import "stave/fem"
+import (
+	"stave/fem"
+	"stave/fem/moving"
+)
 
 // Project is everything a project file holds.
 type Project struct {
@@ -13,7 +16,9 @@ type Project struct {
 	// first. Entries beyond the loads of a kind are skipped and loads beyond
 	// the entries are written last, so a stale order never loses a load.
 	LoadOrder []LoadKind
-	View      View
+	// Trains are moving load trains (version 2, trains.go).
+	Trains []moving.Train
+	View   View
 }
 
 // LoadKind tells point loads from distributed loads in Project.LoadOrder.

@@ -24,6 +24,7 @@ func check(p *Project) []Problem {
 	} else if err != nil {
 		add("", "%v", err)
 	}
+	problems = append(problems, trainProblems(p)...)
 	v := p.View
 	if v.Units != SI && v.Units != US {
 		add("view.units", "%q is not a display unit system; use %q or %q", cut(string(v.Units)), SI, US)
