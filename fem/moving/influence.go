@@ -426,7 +426,10 @@ func (l *Line) Integral(a, b float64) float64 { return l.integral(0, b) - l.inte
 
 // Point is one point of an influence line: the load position S (m) and the
 // value there per newton.
-type Point struct{ S, Value float64 }
+type Point struct {
+	S     float64 `json:"s"`
+	Value float64 `json:"value"`
+}
 
 // Polylines samples the line with about n points in all, each piece from
 // its start to its end (so a jump shows as a gap between two polylines).
@@ -474,4 +477,24 @@ func (l *Line) Extremes() (lo, hi Point) {
 		take(b, c.at(h))
 	}
 	return lo, hi
+}
+
+// Piece is one piece of an influence line: from From to To (m) its value
+// per newton is Σ Coefficients[k]·ξᵏ, ξ = (s − From)/(To − From).
+type Piece struct {
+	From         float64    `json:"from"`
+	To           float64    `json:"to"`
+	Coefficients [4]float64 `json:"coefficients"`
+}
+
+// Pieces are the line's pieces in order; the line may jump between two.
+func (l *Line) Pieces() []Piece {
+	out := make([]Piece, l.pieces())
+	for p := range out {
+		a, b := l.bounds[p], l.bounds[p+1]
+		h := (b - a) / l.length
+		c := l.coef[p]
+		out[p] = Piece{From: a, To: b, Coefficients: [4]float64{c[0], c[1] * h, c[2] * h * h, c[3] * h * h * h}}
+	}
+	return out
 }

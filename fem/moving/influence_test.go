@@ -130,3 +130,19 @@ func TestFixedBarAxialForceInfluenceLine(t *testing.T) {
 		}
 	}
 }
+
+// A line's pieces, each in its own ξ, give the line's values.
+func TestPiecesGiveTheLine(t *testing.T) {
+	in := influence(t, knotty())
+	l := line(t, in, Target{Quantity: fem.QBendingMoment, X: 5.3})
+	for _, p := range l.Pieces() {
+		for _, xi := range []float64{0.1, 0.5, 0.9} {
+			s := p.From + xi*(p.To-p.From)
+			c := p.Coefficients
+			got := c[0] + xi*(c[1]+xi*(c[2]+xi*c[3]))
+			if want := l.At(s, fem.Right); !near(got, want, 1e-12) {
+				t.Errorf("piece %g–%g at s = %g: %.15g, the line %.15g", p.From, p.To, s, got, want)
+			}
+		}
+	}
+}

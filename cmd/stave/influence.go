@@ -1,0 +1,103 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"strings"
+
+	"stave/canvas/report"
+	"stave/fem"
+	"stave/fem/moving"
+	"stave/fem/units"
+	"stave/storage"
+)
+
+// influenceCommand prints the influence line of one quantity of a model,
+// from the exact solution and by finite elements, and what each of the
+// file's trains does to it: its worst positions and, with --envelope, the
+// envelope of every field over all its positions.
+func influenceCommand(args []string, stdout io.Writer) error {
+	fs := newFlagSet("influence")
+	quantity := fs.String("quantity", "", "the quantity: w, theta, V, M, sigma_bending, u, N, sigma_axial (or its name), or reaction")
+	at := fs.String("at", "", "where the quantity is read, along the member (display units, or with a unit: 2.5 m)")
+	side := fs.String("side", "right", "at a point where the quantity jumps, the side it is read on: left or right")
+	support := fs.Int("support", 0, "for a reaction: the support, counted from 1 along the file")
+	motion := fs.String("motion", "transverse", "for a reaction: transverse, rotation or axial")
+	points := fs.Int("points", 20, "the number of intervals the line is printed in")
+	envelope := fs.Bool("envelope", false, "also each train's envelope of every field over all its positions")
+	asJSON := fs.Bool("json", false, "print the result as JSON (SI units)")
+	system := fs.String("units", "", "unit system for the printed text: SI or US (default: the file's display units)")
+	path, err := parseOneFile(fs, args)
+	if err != nil {
+		return err
+	}
+	if *points < 1 || *points > 100000 {
+		return usageError{fmt.Sprintf("--points must be between 1 and 100000, got %d", *points)}
+	}
+	p, err := storage.Load(path)
+	if err != nil {
+		return modelError{err}
+	}
+	name := *system
+	if name == "" {
+		name = string(p.View.Units)
+	}
+	sys, ok := units.ByName(name)
+	if !ok {
+		return usageError{fmt.Sprintf("unknown unit system %q: use SI or US", name)}
+	}
+	target, err := parseTarget(*quantity, *at, *side, *support, *motion, sys)
+	if err != nil {
+		return err
+	}
+	r, err := report.Influence(p, report.InfluenceRequest{Target: target, Points: *points, FiniteElements: true, Envelope: *envelope})
+	if err != nil {
+		return modelError{fmt.Errorf("%s: %w", path, err)}
+	}
+	if *asJSON {
+		return report.WriteInfluenceJSON(stdout, path, r)
+	}
+	report.WriteInfluenceText(stdout, path, r, sys)
+	return nil
+}
+
+// parseTarget reads the target of an influence line from the flags.
+func parseTarget(quantity, at, side string, support int, motion string, sys units.System) (moving.Target, error) {
+	var t moving.Target
+	switch strings.ToLower(quantity) {
+	case "":
+		return t, usageError{"influence needs --quantity: one of w, theta, V, M, sigma_bending, u, N, sigma_axial, or reaction with --support"}
+	case "reaction", "r":
+		if support < 1 {
+			return t, usageError{"a reaction needs --support N, the support counted from 1 along the file"}
+		}
+		d, ok := map[string]fem.Dof{"transverse": fem.Transverse, "rotation": fem.Rotation, "axial": fem.Axial}[motion]
+		if !ok {
+			return t, usageError{fmt.Sprintf("--motion %q: use transverse, rotation or axial", motion)}
+		}
+		return moving.Target{Reaction: true, Support: support - 1, Motion: d}, nil
+	}
+	q, ok := fem.ParseQuantity(quantity)
+	if !ok {
+		q, ok = fem.ParseQuantity(strings.ReplaceAll(quantity, "-", " "))
+	}
+	if !ok {
+		return t, usageError{fmt.Sprintf("--quantity %q is not a quantity: use w, theta, V, M, sigma_bending, u, N, sigma_axial, or reaction", quantity)}
+	}
+	if at == "" {
+		return t, usageError{fmt.Sprintf("the %s needs --at: where along the member to read it", q)}
+	}
+	x, err := sys.Parse(units.Position, at)
+	if err != nil {
+		return t, usageError{fmt.Sprintf("--at: %v", err)}
+	}
+	t = moving.Target{Quantity: q, X: x, Side: fem.Right}
+	switch side {
+	case "left":
+		t.Side = fem.Left
+	case "right":
+	default:
+		return t, usageError{fmt.Sprintf("--side %q: use left or right", side)}
+	}
+	return t, nil
+}
