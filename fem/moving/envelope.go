@@ -288,6 +288,74 @@ func (e *Envelope) Placement(i int32) Placement {
 	return Placement{}
 }
 
+// Nearest is the envelope's position nearest to p, facing p's way when the
+// train moves that way (else the first way it moves).
+func (e *Envelope) Nearest(p Placement) Placement {
+	r := e.runs[0]
+	for _, o := range e.runs {
+		if o.direction == p.Direction {
+			r = o
+		}
+	}
+	k := 0
+	if r.n > 1 {
+		k = min(max(int(math.Round((p.Front-r.s0)/r.step)), 0), r.n-1)
+	}
+	return Placement{r.direction, r.front(k)}
+}
+
+// Combine is the envelope of a combination that takes the train with a
+// factor on top of fixed loads: base[q][s] is quantity q of
+// EnvelopeQuantities at station s under the fixed loads, already factored
+// (nil for none). A positive factor takes the train's largest value to the
+// combination's largest, a negative one its smallest, with the positions
+// that govern them. The reactions combine likewise with baseReactions (one
+// per entry of Reactions; nil for none). The load-case envelope merges a
+// train this way.
+func (e *Envelope) Combine(factor float64, base [][]float64, baseReactions []float64) *Envelope {
+	out := *e
+	nq := len(EnvelopeQuantities)
+	out.Max, out.Min = make([][]float64, nq), make([][]float64, nq)
+	out.MaxAt, out.MinAt = make([][]int32, nq), make([][]int32, nq)
+	for q := range nq {
+		hi, lo, hiAt, loAt := e.Max[q], e.Min[q], e.MaxAt[q], e.MinAt[q]
+		if factor < 0 {
+			hi, lo, hiAt, loAt = lo, hi, loAt, hiAt
+		}
+		out.Max[q], out.Min[q] = make([]float64, len(e.Stations)), make([]float64, len(e.Stations))
+		out.MaxAt[q], out.MinAt[q] = slices.Clone(hiAt), slices.Clone(loAt)
+		for s := range e.Stations {
+			b := 0.0
+			if base != nil {
+				b = base[q][s]
+			}
+			out.Max[q][s], out.Min[q][s] = b+factor*hi[s], b+factor*lo[s]
+		}
+	}
+	out.Reactions = slices.Clone(e.Reactions)
+	for i := range out.Reactions {
+		r := &out.Reactions[i]
+		b := 0.0
+		if baseReactions != nil {
+			b = baseReactions[i]
+		}
+		if factor < 0 {
+			r.Max, r.Min, r.MaxAt, r.MinAt = r.Min, r.Max, r.MinAt, r.MaxAt
+		}
+		r.Max, r.Min = b+factor*r.Max, b+factor*r.Min
+	}
+	return &out
+}
+
+// AllPositions is the number of positions in every direction together.
+func (e *Envelope) AllPositions() int {
+	n := 0
+	for _, r := range e.runs {
+		n += r.n
+	}
+	return n
+}
+
 // Extreme is one extreme of a quantity: its value, where it is and the
 // train's position that gives it.
 type Extreme struct {

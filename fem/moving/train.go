@@ -76,6 +76,18 @@ const (
 	derivedPositions = 20000
 )
 
+// CloneTrains copies ts deeply: no slice is shared with ts; nil stays nil.
+func CloneTrains(ts []Train) []Train {
+	if ts == nil {
+		return nil
+	}
+	out := slices.Clone(ts)
+	for i := range out {
+		out[i].Axles = slices.Clone(ts[i].Axles)
+	}
+	return out
+}
+
 // Label names the train in messages: its name, or its number (from 1) in a
 // list when it has none.
 func (t *Train) Label(i int) string {

@@ -197,3 +197,73 @@ func TestTrainProblems(t *testing.T) {
 		t.Errorf("a sound train has problems: %+v", ps)
 	}
 }
+
+// A train in a combination on top of fixed loads: at every station the
+// combination's extremes are the fixed loads' field plus the factor times
+// the train's extreme on the side the factor's sign picks, checked against
+// the combination solved at the governing position by fem's exact solver
+// (superposition: the fields are linear in the loads).
+func TestCombinedEnvelope(t *testing.T) {
+	m := knotty()
+	m.Gravity = [2]float64{0, -fem.StandardGravity}
+	m.Segments[0].Material.Density, m.Segments[1].Material.Density = 7850, 7850
+	in := influence(t, m)
+	p, _ := fem.Prepare(m)
+	tr := &Train{Axles: []Axle{{Load: 20e3}, {Load: 35e3, Spacing: 1.8}}, Step: 0.1}
+	stations := []float64{1, 2.5, 5, 7.3, 9}
+	e, err := in.Envelope(tr, p.Mesh(), stations)
+	if err != nil {
+		t.Fatal(err)
+	}
+	own, err := fem.SolveExact(m) // the self-weight alone
+	if err != nil {
+		t.Fatal(err)
+	}
+	base := make([][]float64, len(EnvelopeQuantities))
+	for q, qty := range EnvelopeQuantities {
+		for _, x := range stations {
+			f := own.At(x, fem.Right)
+			base[q] = append(base[q], 1.35*qty.Of(&f))
+		}
+	}
+	for _, factor := range []float64{1.5, -0.8} {
+		c := e.Combine(factor, base, nil)
+		for q, qty := range EnvelopeQuantities {
+			for s, x := range stations {
+				// The largest of base + factor·train over the positions is
+				// base + factor times the train's largest for a positive
+				// factor, its smallest for a negative one.
+				hi, lo := e.Max[q][s], e.Min[q][s]
+				if factor < 0 {
+					hi, lo = lo, hi
+				}
+				if c.Max[q][s] != base[q][s]+factor*hi || c.Min[q][s] != base[q][s]+factor*lo || c.Max[q][s] < c.Min[q][s] {
+					t.Errorf("factor %g, %s at %g: combined %g to %g, want %g to %g", factor, qty, x, c.Min[q][s], c.Max[q][s], base[q][s]+factor*lo, base[q][s]+factor*hi)
+				}
+				for _, got := range []struct {
+					v  float64
+					at int32
+				}{{c.Max[q][s], c.MaxAt[q][s]}, {c.Min[q][s], c.MinAt[q][s]}} {
+					loads := *m
+					loads.PointLoads, _ = tr.Loads(e.Placement(got.at))
+					for i := range loads.PointLoads {
+						loads.PointLoads[i].Transverse *= factor
+					}
+					loads.Gravity = [2]float64{0, -1.35 * fem.StandardGravity}
+					ex, err := fem.SolveExact(&loads)
+					if err != nil {
+						t.Fatal(err)
+					}
+					// An axle standing on x: the envelope holds the limit on
+					// the side that gives more, so either side may match.
+					l, r := ex.At(x, fem.Left), ex.At(x, fem.Right)
+					wl, wr := qty.Of(&l), qty.Of(&r)
+					tol := 1e-9 * max(math.Abs(wl), math.Abs(wr), 1e-12)
+					if math.Abs(got.v-wl) > tol && math.Abs(got.v-wr) > tol {
+						t.Errorf("factor %g, %s at %g: combined envelope %.12g, solved %.12g or %.12g", factor, qty, x, got.v, wl, wr)
+					}
+				}
+			}
+		}
+	}
+}
