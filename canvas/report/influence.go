@@ -4,8 +4,10 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"slices"
 	"text/tabwriter"
 
+	"stave/canvas"
 	"stave/fem"
 	"stave/fem/moving"
 	"stave/fem/units"
@@ -285,4 +287,106 @@ func WriteInfluenceJSON(w io.Writer, path string, r *MovingLoads) error {
 	l.Samples, l.Pieces, l.Largest, l.Smallest = r.Samples, r.Line.Pieces(), r.Largest, r.Smallest
 	j.Trains = TrainsJSON(r.Member.Model(), r.Trains, true)
 	return WriteJSON(w, j)
+}
+
+// MovingPicture is the picture of r with train i of its trains (counted
+// from 0) standing at its worst position for the target, or, for an axial
+// target, for the bending moment's largest value; it needs the train's
+// envelope (InfluenceRequest.Envelope).
+func MovingPicture(r *MovingLoads, i int, u units.System) (canvas.MovingInput, error) {
+	in := canvas.MovingInput{Model: r.Member.Model(), Units: u, Line: r.Line, Quantity: -1}
+	if len(r.Trains) == 0 {
+		return in, nil
+	}
+	if i < 0 || i >= len(r.Trains) {
+		return in, fmt.Errorf("there is no train %d: the file has %d", i+1, len(r.Trains))
+	}
+	tr := &r.Trains[i]
+	if tr.Err != nil {
+		return in, tr.Err
+	}
+	if tr.Envelope == nil {
+		return in, fmt.Errorf("%s: the picture needs the train's envelope", tr.Label)
+	}
+	in.Train, in.Envelope = &tr.Train, tr.Envelope
+	q := r.Line.Target.Quantity
+	in.Quantity = slices.Index(moving.EnvelopeQuantities, q)
+	if r.Line.Target.Reaction || in.Quantity < 0 {
+		in.Quantity = slices.Index(moving.EnvelopeQuantities, fem.QBendingMoment)
+	}
+	if tr.Target {
+		in.Worst = []moving.Extreme{placed(tr.Largest), placed(tr.Smallest)}
+		in.At = in.Worst[0].Placement
+	} else {
+		hi, _ := tr.Envelope.Worst(moving.EnvelopeQuantities[in.Quantity])
+		in.At = hi.Placement
+	}
+	tm := tr.Train.Model(in.Model, in.At)
+	exact, err := fem.SolveExact(&tm)
+	if err != nil {
+		return in, err
+	}
+	q = moving.EnvelopeQuantities[in.Quantity]
+	in.Current = make([]float64, len(tr.Envelope.Stations))
+	for s, x := range tr.Envelope.Stations {
+		f := exact.At(x, fem.Right)
+		in.Current[s] = q.Of(&f)
+	}
+	return in, nil
+}
+
+// placed turns a reported extreme back into the package's own.
+func placed(e TrainExtreme) moving.Extreme {
+	d, _ := moving.ParseDirection(e.Direction)
+	return moving.Extreme{Value: e.Value, X: e.X, Placement: moving.Placement{Direction: d, Front: e.Front}}
+}
+
+// MovingSheet is the one-page sheet of r with train i (from 0): the
+// picture of MovingPicture, what the train and the line are, and the
+// train's governing positions with their finite element checks.
+func MovingSheet(p *storage.Project, r *MovingLoads, i int, u units.System) (canvas.MovingSheet, error) {
+	pic, err := MovingPicture(r, i, u)
+	if err != nil {
+		return canvas.MovingSheet{}, err
+	}
+	if pic.Train == nil {
+		return canvas.MovingSheet{}, fmt.Errorf("the file has no train to put on a sheet: add one under \"trains\" (docs/format.md)")
+	}
+	tr := &r.Trains[i]
+	n := p.Notes
+	s := canvas.MovingSheet{Picture: pic, Notes: canvas.SheetNotes{Project: n.Project, Mark: n.Member, Engineer: n.Engineer, Date: n.Date, Version: Version}}
+	L := r.Member.Model().Length()
+	unit, scale := influenceUnit(r.Line.Target, u)
+	s.About = []string{
+		describeTrain(&tr.Train, tr.Label, L, u) + fmt.Sprintf("; %d positions in each direction, %s apart.", tr.Envelope.Positions, u.Format(units.Position, tr.Envelope.Step)),
+		fmt.Sprintf("Influence line of the %s for %s: largest %s %s with the load at %s, smallest %s %s at %s; exact solution in closed form, checked by one finite element solve per position.",
+			describeTarget(r.Line.Target, u), r.Line.Target.Unit(), units.FormatNumber(r.Largest.Value*scale), unit, u.Format(units.Position, r.Largest.S),
+			units.FormatNumber(r.Smallest.Value*scale), unit, u.Format(units.Position, r.Smallest.S)),
+		"Envelope: at every station the largest and smallest value over all positions (where an axle stands on the station, on the side that gives more); each extreme below is solved again by finite elements with the train at its governing position.",
+	}
+	s.Header = []string{"quantity", "largest", "at", "front", "smallest", "at", "front"}
+	pos := func(x float64) string { return u.Format(units.Position, x) }
+	front := func(e TrainExtreme) string { return pos(e.Front) + " " + e.Direction }
+	// The finite element check shows where it differs as printed.
+	withFE := func(k units.Kind, e TrainExtreme) string {
+		v := u.Format(k, e.Value)
+		if fe := u.Format(k, *e.FE); e.FE != nil && fe != v {
+			v += " (FE " + fe + ")"
+		}
+		return v
+	}
+	for _, w := range tr.Worst {
+		k := w.Quantity.Info().Unit
+		s.Rows = append(s.Rows, []string{w.Quantity.String(), withFE(k, w.Largest), pos(w.Largest.X), front(w.Largest), withFE(k, w.Smallest), pos(w.Smallest.X), front(w.Smallest)})
+	}
+	for _, re := range tr.Envelope.Reactions {
+		k := units.Force
+		if re.Motion == fem.Rotation {
+			k = units.Moment
+		}
+		x := pos(p.Model.Supports[re.Support].X)
+		s.Rows = append(s.Rows, []string{fmt.Sprintf("%s reaction %d", re.Motion, re.Support+1), u.Format(k, re.Max), x, pos(re.MaxAt.Front) + " " + re.MaxAt.Direction.String(),
+			u.Format(k, re.Min), x, pos(re.MinAt.Front) + " " + re.MinAt.Direction.String()})
+	}
+	return s, nil
 }

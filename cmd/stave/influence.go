@@ -3,8 +3,10 @@ package main
 import (
 	"fmt"
 	"io"
+	"path/filepath"
 	"strings"
 
+	"stave/canvas"
 	"stave/canvas/report"
 	"stave/fem"
 	"stave/fem/moving"
@@ -25,6 +27,9 @@ func influenceCommand(args []string, stdout io.Writer) error {
 	motion := fs.String("motion", "transverse", "for a reaction: transverse, rotation or axial")
 	points := fs.Int("points", 20, "the number of intervals the line is printed in")
 	envelope := fs.Bool("envelope", false, "also each train's envelope of every field over all its positions")
+	out := fs.String("out", "", "also draw the line, a train at its worst position and its envelope to NAME.png, NAME.svg or NAME.pdf")
+	sheet := fs.String("sheet", "", "also write a one-page calculation sheet of the train to NAME.pdf or NAME.png")
+	train := fs.Int("train", 1, "the train --out and --sheet show, counted from 1 along the file")
 	asJSON := fs.Bool("json", false, "print the result as JSON (SI units)")
 	system := fs.String("units", "", "unit system for the printed text: SI or US (default: the file's display units)")
 	path, err := parseOneFile(fs, args)
@@ -50,9 +55,19 @@ func influenceCommand(args []string, stdout io.Writer) error {
 	if err != nil {
 		return err
 	}
-	r, err := report.Influence(p, report.InfluenceRequest{Target: target, Points: *points, FiniteElements: true, Envelope: *envelope})
+	r, err := report.Influence(p, report.InfluenceRequest{Target: target, Points: *points, FiniteElements: true, Envelope: *envelope || *out != "" || *sheet != ""})
 	if err != nil {
 		return modelError{fmt.Errorf("%s: %w", path, err)}
+	}
+	if *out != "" {
+		if err := writePicture(r, *out, *train-1, sys); err != nil {
+			return err
+		}
+	}
+	if *sheet != "" {
+		if err := writeMovingSheet(p, r, *sheet, *train-1, sys); err != nil {
+			return err
+		}
 	}
 	if *asJSON {
 		return report.WriteInfluenceJSON(stdout, path, r)
@@ -100,4 +115,34 @@ func parseTarget(quantity, at, side string, support int, motion string, sys unit
 		return t, usageError{fmt.Sprintf("--side %q: use left or right", side)}
 	}
 	return t, nil
+}
+
+// writePicture draws the moving-loads picture of r with train i to the
+// file name, its format from the extension.
+func writePicture(r *report.MovingLoads, name string, i int, sys units.System) error {
+	format := strings.TrimPrefix(strings.ToLower(filepath.Ext(name)), ".")
+	if format != "png" && format != "svg" && format != "pdf" {
+		return usageError{fmt.Sprintf("--out %q: name a .png, .svg or .pdf file", name)}
+	}
+	in, err := report.MovingPicture(r, i, sys)
+	if err != nil {
+		return modelError{err}
+	}
+	_, err = writeExport(name, func(w io.Writer) error { return canvas.WriteMoving(w, format, in, 1200, 760, 96.0/72) })
+	return err
+}
+
+// writeMovingSheet writes the one-page sheet of r with train i to the file
+// name, a PDF or PNG by its extension.
+func writeMovingSheet(p *storage.Project, r *report.MovingLoads, name string, i int, sys units.System) error {
+	format := strings.TrimPrefix(strings.ToLower(filepath.Ext(name)), ".")
+	if format != "png" && format != "pdf" {
+		return usageError{fmt.Sprintf("--sheet %q: name a .pdf or .png file", name)}
+	}
+	in, err := report.MovingSheet(p, r, i, sys)
+	if err != nil {
+		return modelError{err}
+	}
+	_, err = writeExport(name, func(w io.Writer) error { return canvas.WriteMovingSheet(w, format, in) })
+	return err
 }
