@@ -100,6 +100,8 @@ func (w *Window) mainMenu() *fyne.MainMenu {
 		w.item("Cancel the running study", nil, w.cancelStudy),
 		fyne.NewMenuItemSeparator(),
 		w.item("Check limits…", nil, w.showCheckLimits),
+		fyne.NewMenuItemSeparator(),
+		w.item("Moving loads…", nil, w.showMovingLoads),
 	)
 	member := fyne.NewMenu("Member",
 		w.item("Section calculator…", nil, w.showSectionCalculator),

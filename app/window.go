@@ -16,6 +16,7 @@ import (
 	"stave/fem"
 	"stave/fem/analysis"
 	"stave/fem/check"
+	"stave/fem/moving"
 	"stave/fem/units"
 	"stave/storage"
 )
@@ -86,6 +87,8 @@ type Window struct {
 	// earlierKept reports that the user kept a previous run's autosave for
 	// the next start: this window does not autosave over it.
 	earlierKept bool
+	// moving is the moving-loads window (train.go) while it is open.
+	moving *movingWindow
 }
 
 // options are the parts of a window that tests replace.
@@ -145,6 +148,7 @@ func cloneProject(p storage.Project) storage.Project {
 	c := p
 	c.Model = p.Model.Clone()
 	c.LoadOrder = append([]storage.LoadKind(nil), p.LoadOrder...)
+	c.Trains = moving.CloneTrains(p.Trains)
 	return c
 }
 
@@ -234,6 +238,9 @@ func (w *Window) modelChanged() {
 	w.ui.showProperties()
 	w.ui.showMesh()
 	w.updateTitle()
+	if w.moving != nil {
+		w.moving.modelChanged()
+	}
 }
 
 func (w *Window) undo() {
