@@ -2,7 +2,10 @@ package main
 
 import (
 	"encoding/json"
+	"image/png"
 	"math"
+	"os"
+	"path/filepath"
 	"strings"
 	"testing"
 )
@@ -128,5 +131,31 @@ func TestInfluenceCommandMisuse(t *testing.T) {
 		if code != c.code || !strings.Contains(stderr, c.says) {
 			t.Errorf("influence %v: exit %d, stderr %q; want exit %d saying %q", c.args, code, stderr, c.code, c.says)
 		}
+	}
+}
+
+// --out draws the picture and --sheet writes the one-page sheet.
+func TestInfluenceCommandPictureAndSheet(t *testing.T) {
+	dir := t.TempDir()
+	pic, sheet := filepath.Join(dir, "line.png"), filepath.Join(dir, "sheet.pdf")
+	code, _, stderr := runStave(t, "influence", "../../testdata/moving/runway.json", "--quantity", "M", "--at", "2.4", "--train", "2", "--out", pic, "--sheet", sheet)
+	if code != 0 {
+		t.Fatalf("exit %d, stderr %s", code, stderr)
+	}
+	f, err := os.Open(pic)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	if _, err := png.Decode(f); err != nil {
+		t.Errorf("the picture is not a PNG: %v", err)
+	}
+	data, err := os.ReadFile(sheet)
+	if err != nil || !strings.HasPrefix(string(data), "%PDF") {
+		t.Errorf("the sheet is not a PDF (%v)", err)
+	}
+	code, _, stderr = runStave(t, "influence", "../../testdata/moving/runway.json", "--quantity", "M", "--at", "2.4", "--train", "3", "--out", pic)
+	if code != 1 || !strings.Contains(stderr, "there is no train 3") {
+		t.Errorf("a third train of two: exit %d, stderr %q", code, stderr)
 	}
 }
