@@ -52,11 +52,7 @@ type InfluenceSample struct {
 // worst positions of each of p's trains for it (and their envelopes when
 // asked).
 func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
-	member, err := fem.Prepare(&p.Model)
-	if err != nil {
-		return nil, err
-	}
-	in, err := moving.New(member)
+	member, in, err := influenceOf(p)
 	if err != nil {
 		return nil, err
 	}

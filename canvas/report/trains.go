@@ -148,15 +148,21 @@ func feReading(m *fem.Model, t *moving.Train, q fem.Quantity, ex moving.Extreme)
 // checked by finite elements at its governing position: what the solve
 // command can add to its JSON as "trains" (TrainsJSON).
 func TrainEnvelopes(p *storage.Project) ([]TrainResult, error) {
-	member, err := fem.Prepare(&p.Model)
-	if err != nil {
-		return nil, err
-	}
-	in, err := moving.New(member)
+	member, in, err := influenceOf(p)
 	if err != nil {
 		return nil, err
 	}
 	return trainResults(p, in, member.Mesh(), nil, true)
+}
+
+// influenceOf prepares the member of p and sets up its influence lines.
+func influenceOf(p *storage.Project) (*fem.Member, *moving.Influence, error) {
+	member, err := fem.Prepare(&p.Model)
+	if err != nil {
+		return nil, nil, err
+	}
+	in, err := moving.New(member)
+	return member, in, err
 }
 
 // TrainJSON is one train's results as JSON, in SI units; positions are the

@@ -43,13 +43,12 @@ func influenceCommand(args []string, stdout io.Writer) error {
 	if err != nil {
 		return modelError{err}
 	}
-	name := *system
-	if name == "" {
-		name = string(p.View.Units)
-	}
-	sys, ok := units.ByName(name)
-	if !ok {
-		return usageError{fmt.Sprintf("unknown unit system %q: use SI or US", name)}
+	sys := report.UnitSystem(p.View.Units)
+	if *system != "" {
+		var ok bool
+		if sys, ok = units.ByName(*system); !ok {
+			return usageError{fmt.Sprintf("unknown unit system %q: use SI or US", *system)}
+		}
 	}
 	target, err := parseTarget(*quantity, *at, *side, *support, *motion, sys)
 	if err != nil {

@@ -147,19 +147,19 @@ func (s *sweeps) supportActions(sup fem.Support) []action {
 		}
 		return out
 	}
-	switch {
-	case sup.Kind.Restrains(fem.Transverse):
-		out = append(out, action{constrain: true, row: compW, into: compV})
-	case sup.Elastic(fem.Transverse):
-		// V⁺ = V⁻ − k·w.
-		out = append(out, action{row: compW, into: compV, c: -sup.Stiffness[fem.Transverse] * l * l * l / e})
-	}
-	switch {
-	case sup.Kind.Restrains(fem.Rotation):
-		out = append(out, action{constrain: true, row: compTheta, into: compM})
-	case sup.Elastic(fem.Rotation):
-		// M⁺ = M⁻ + k·θ.
-		out = append(out, action{row: compTheta, into: compM, c: sup.Stiffness[fem.Rotation] * l / e})
+	// A restraint of w acts on V, one of θ on M; springs make V⁺ = V⁻ − k·w
+	// and M⁺ = M⁻ + k·θ, their reactions being −k·w and −k·θ.
+	for _, r := range []struct {
+		motion    fem.Dof
+		row, into int
+		scale     float64
+	}{{fem.Transverse, compW, compV, -l * l * l / e}, {fem.Rotation, compTheta, compM, l / e}} {
+		switch {
+		case sup.Kind.Restrains(r.motion):
+			out = append(out, action{constrain: true, row: r.row, into: r.into})
+		case sup.Elastic(r.motion):
+			out = append(out, action{row: r.row, into: r.into, c: sup.Stiffness[r.motion] * r.scale})
+		}
 	}
 	return out
 }

@@ -23,6 +23,13 @@ func beam(L float64, sups ...fem.Support) *fem.Model {
 
 func influence(t *testing.T, m *fem.Model) *Influence {
 	t.Helper()
+	_, in := prepared(t, m)
+	return in
+}
+
+// prepared is m's member and its influence lines.
+func prepared(t *testing.T, m *fem.Model) (*fem.Member, *Influence) {
+	t.Helper()
 	p, err := fem.Prepare(m)
 	if err != nil {
 		t.Fatal(err)
@@ -31,7 +38,7 @@ func influence(t *testing.T, m *fem.Model) *Influence {
 	if err != nil {
 		t.Fatal(err)
 	}
-	return in
+	return p, in
 }
 
 func line(t *testing.T, in *Influence, tg Target) *Line {

@@ -151,13 +151,19 @@ func TestDeflectionLineIsTheDeflectedShape(t *testing.T) {
 	in := influence(t, m)
 	for _, x0 := range []float64{1.7, 3, 5, 6, 9.2} {
 		l := line(t, in, Target{Quantity: fem.QDeflection, X: x0})
-		e := exactUnder(t, m, x0, true)
-		tol := 1e-9 * scaleOf(t, l)
-		for s := 0.0; s <= 10; s += 0.25 {
-			f := e.At(s, fem.Right)
-			if got := l.At(s, fem.Right); math.Abs(got-f.Deflection) > tol {
-				t.Errorf("x0 = %g, s = %g: the line of w(x0) gives %.12g, the deflection under a unit load at x0 %.12g", x0, s, got, f.Deflection)
-			}
+		sameAsDeflection(t, l, exactUnder(t, m, x0, true), fmt.Sprintf("the line of w(%g) and the deflection under a unit load there", x0))
+	}
+}
+
+// sameAsDeflection compares line l with the deflected shape of e along
+// the member.
+func sameAsDeflection(t *testing.T, l *Line, e *fem.Exact, what string) {
+	t.Helper()
+	tol := 1e-9 * scaleOf(t, l)
+	for s := 0.0; s <= 10; s += 0.25 {
+		f := e.At(s, fem.Right)
+		if got := l.At(s, fem.Right); math.Abs(got-f.Deflection) > tol {
+			t.Errorf("%s, s = %g: %.12g against %.12g", what, s, got, f.Deflection)
 		}
 	}
 }
@@ -179,13 +185,7 @@ func TestReactionLineIsTheSettlementShape(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		tol := 1e-9 * scaleOf(t, l)
-		for s := 0.0; s <= 10; s += 0.25 {
-			f := e.At(s, fem.Right)
-			if got := l.At(s, fem.Right); math.Abs(got-f.Deflection) > tol {
-				t.Errorf("%s reaction at the fixed end, s = %g: line %.12g, settlement shape %.12g", d, s, got, f.Deflection)
-			}
-		}
+		sameAsDeflection(t, l, e, fmt.Sprintf("the line of the %s reaction at the fixed end and the settlement shape", d))
 	}
 }
 
@@ -198,14 +198,7 @@ func TestFiniteElementLineAgreesWithClosedForm(t *testing.T) {
 	for _, elements := range []int{100, 100000} {
 		m := knotty()
 		m.Mesh.Elements = elements
-		p, err := fem.Prepare(m)
-		if err != nil {
-			t.Fatal(err)
-		}
-		in, err := New(p)
-		if err != nil {
-			t.Fatal(err)
-		}
+		p, in := prepared(t, m)
 		mesh := p.Mesh()
 		positions := []float64{0.05, 1.3, 3, 4.42, 6, 7.77, 8, 9.95}
 		if elements > 1000 {
