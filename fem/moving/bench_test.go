@@ -22,7 +22,7 @@ func cpuTime(b *testing.B) time.Duration {
 // over 2,000 positions on a beam of 10,000 elements, the envelope taken at
 // every node. The beam is two continuous spans of 15 m (invented), the
 // train an invented four-axle vehicle 6.6 m long.
-func benchmarkTrain(b *testing.B, d Direction) {
+func benchmarkTrain(b *testing.B, d Direction, positions int) {
 	m := beam(30, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: 15, Kind: fem.Roller}, fem.Support{X: 30, Kind: fem.Roller})
 	m.Mesh = fem.MeshSettings{Elements: 10000}
 	p, err := fem.Prepare(m)
@@ -35,7 +35,7 @@ func benchmarkTrain(b *testing.B, d Direction) {
 		b.Fatal(err)
 	}
 	tr := &Train{Axles: []Axle{{Load: 60e3}, {Load: 60e3, Spacing: 1.2}, {Load: 90e3, Spacing: 4.2}, {Load: 90e3, Spacing: 1.2}}, Direction: d}
-	tr.Step = (30 - tr.Length()) / 1999
+	tr.Step = (30 - tr.Length()) / float64(positions-1)
 	stations := Stations(mesh)
 	if len(stations) != 10001 {
 		b.Fatalf("%d stations, want the 10,001 nodes", len(stations))
@@ -48,19 +48,47 @@ func benchmarkTrain(b *testing.B, d Direction) {
 		if err != nil {
 			b.Fatal(err)
 		}
-		if e.Positions != 2000 {
-			b.Fatalf("%d positions, want 2,000", e.Positions)
+		if e.Positions != positions {
+			b.Fatalf("%d positions, want %d", e.Positions, positions)
 		}
 	}
 }
 
 func BenchmarkEnvelopeFourAxles2000Positions10000Elements(b *testing.B) {
-	benchmarkTrain(b, Forward)
+	benchmarkTrain(b, Forward, 2000)
 }
 
 // Both ways: 4,000 positions.
 func BenchmarkEnvelopeFourAxlesBothWays(b *testing.B) {
-	benchmarkTrain(b, BothWays)
+	benchmarkTrain(b, BothWays, 2000)
+}
+
+// Ten times the positions: the cost does not grow with them.
+func BenchmarkEnvelopeFourAxles20000Positions(b *testing.B) {
+	benchmarkTrain(b, Forward, 20000)
+}
+
+// The finite element influence line on the same beam: one solve per load
+// position on one factorization, reported per position.
+func BenchmarkFELinePerPosition10000Elements(b *testing.B) {
+	m := beam(30, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: 15, Kind: fem.Roller}, fem.Support{X: 30, Kind: fem.Roller})
+	m.Mesh = fem.MeshSettings{Elements: 10000}
+	p, err := fem.Prepare(m)
+	if err != nil {
+		b.Fatal(err)
+	}
+	mesh := p.Mesh()
+	positions := make([]float64, 20)
+	for i := range positions {
+		positions[i] = 30 * float64(i) / 19
+	}
+	b.ResetTimer()
+	for range b.N {
+		if _, _, err := FELine(p, mesh, Target{Quantity: fem.QBendingMoment, X: 7.5}, positions); err != nil {
+			b.Fatal(err)
+		}
+	}
+	b.ReportMetric(float64(b.Elapsed().Microseconds())/float64(b.N*len(positions)), "µs/position")
 }
 
 // Setting up the influence lines of the same member: the two sweeps.

@@ -13,12 +13,20 @@ func (p *poly) at(u float64) float64 {
 // shift returns q(u) = p(u + t) (repeated synthetic division, Knuth,
 // TAOCP vol. 2, 4.6.4, from memory).
 func (p poly) shift(t float64) poly {
-	if t == 0 {
-		return p
-	}
-	for i := range 4 {
-		for k := 3; k >= i; k-- {
-			p[k] += t * p[k+1]
+	switch {
+	case t == 0:
+	case p[4] == 0: // a cubic, as every influence line is
+		p[2] += t * p[3]
+		p[1] += t * p[2]
+		p[0] += t * p[1]
+		p[2] += t * p[3]
+		p[1] += t * p[2]
+		p[2] += t * p[3]
+	default:
+		for i := range 4 {
+			for k := 3; k >= i; k-- {
+				p[k] += t * p[k+1]
+			}
 		}
 	}
 	return p
