@@ -105,3 +105,38 @@ func BenchmarkNewInfluence(b *testing.B) {
 		}
 	}
 }
+
+// One step of a drag in the window: the train solved in closed form where
+// it stands and read at every station, and the influence line under the
+// mouse with the train's worst positions for it; on two spans of 6 m with
+// 120 elements (the runway demo's member) and a two-axle train.
+func BenchmarkDragStep(b *testing.B) {
+	m := beam(12, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: 6, Kind: fem.Roller}, fem.Support{X: 12, Kind: fem.Roller})
+	m.Mesh = fem.MeshSettings{Elements: 120}
+	p, err := fem.Prepare(m)
+	if err != nil {
+		b.Fatal(err)
+	}
+	in, err := New(p)
+	if err != nil {
+		b.Fatal(err)
+	}
+	mesh := p.Mesh()
+	tr := &Train{Axles: []Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}, Step: 0.05}
+	stations := Stations(mesh)
+	b.ResetTimer()
+	for i := range b.N {
+		tm := tr.Model(m, Placement{Direction: Forward, Front: 5 + float64(i%100)*0.05})
+		e, err := fem.SolveExact(&tm)
+		if err != nil {
+			b.Fatal(err)
+		}
+		for _, x := range stations {
+			f := e.At(x, fem.Right)
+			_ = f.BendingMoment
+		}
+		if _, _, err := in.Worst(tr, mesh, Target{Quantity: fem.QBendingMoment, X: 2.5 + float64(i%50)*0.1}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
