@@ -40,7 +40,8 @@ type movingWindow struct {
 	step        *widget.Entry
 	axles       *fyne.Container
 	axleRows    []axleRow
-	uniform     [3]*widget.Entry // load, start, length
+	formScroll  *container.Scroll // holds the form: laid out again when rows change
+	uniform     [3]*widget.Entry  // load, start, length
 
 	quantity     *widget.Select
 	targetSelect *widget.Select
@@ -139,7 +140,7 @@ func (mw *movingWindow) build() {
 		form,
 		heading(fmt.Sprintf("Axles, front first (load in %s, spacing from the axle before in %s)", u.Unit(units.Force).Symbol, u.Unit(units.Position).Symbol)),
 		mw.axles,
-		widget.NewButton("Add an axle", func() { mw.addAxleRow(moving.Axle{}) }),
+		widget.NewButton("Add an axle", func() { mw.addAxleRow(moving.Axle{}); mw.rowsChanged() }),
 		heading("Uniform load moving with it"),
 		uniform,
 		widget.NewButton("Apply", mw.apply),
@@ -168,7 +169,8 @@ func (mw *movingWindow) build() {
 	top := newFlow(widget.NewLabel("Field"), wide(mw.quantity, 190), widget.NewLabel("Influence line of"), wide(mw.targetSelect, 380),
 		widget.NewButton("Worst position", mw.toWorst))
 	center := container.NewBorder(top, container.NewVBox(mw.readout, widget.NewLabel("Drag the train along the member; the influence line follows the mouse, a click pins it to a point (click again to let go).")), nil, nil, mw.pic)
-	split := container.NewHSplit(container.NewVScroll(left), center)
+	mw.formScroll = container.NewVScroll(left)
+	split := container.NewHSplit(mw.formScroll, center)
 	split.SetOffset(0.27)
 	mw.win.SetContent(container.NewBorder(nil, container.NewVBox(widget.NewSeparator(), mw.status, warning), nil, nil, split))
 }
@@ -229,6 +231,7 @@ func (mw *movingWindow) choose(i int) {
 	for _, a := range t.Axles {
 		mw.addAxleRow(a)
 	}
+	mw.rowsChanged()
 	mw.uniform[0].SetText(formatOrEmpty(u, units.LineLoad, t.Uniform.Load, true))
 	mw.uniform[1].SetText(formatOrEmpty(u, units.Position, t.Uniform.Start, t.Uniform.Load == 0))
 	mw.uniform[2].SetText(formatOrEmpty(u, units.Position, t.Uniform.Length, t.Uniform.Load == 0))
@@ -273,9 +276,19 @@ func (mw *movingWindow) addAxleRow(a moving.Axle) {
 				mw.addAxleRow(a)
 			}
 		}
+		mw.rowsChanged()
 	}
 	mw.axleRows = append(mw.axleRows, r)
 	mw.axles.Add(r.row)
+}
+
+// rowsChanged lays the form out again for the axle table's new rows.
+func (mw *movingWindow) rowsChanged() {
+	if mw.formScroll == nil {
+		return // still being built
+	}
+	mw.formScroll.Content.Refresh()
+	mw.formScroll.Refresh()
 }
 
 // readAxles reads the axle table; a row left empty is skipped.

@@ -70,12 +70,14 @@ func BuildMoving(in MovingInput, width, height float32) (*Scene, MovingBands) {
 	}
 	v.Fit(in.Model)
 	b.v = v
-	// Bands: the sketch, the envelope, the influence line.
+	// Bands: the sketch (the train's title, an axle's label, its arrow,
+	// the member, the supports and the run), the envelope, the influence
+	// line.
 	top := float32(6)
-	sketch := max(110, height*0.24)
-	rest := height - top - sketch
-	bands.MemberY = top + sketch*0.62
-	bands.EnvelopeTop, bands.EnvelopeBottom = top+sketch+4, top+sketch+rest*0.55
+	bands.MemberY = top + TextHeight(labelSize) + TextHeight(smallSize) + movingArrow + 14
+	sketchBottom := bands.MemberY + supportHeight + 22
+	rest := height - sketchBottom
+	bands.EnvelopeTop, bands.EnvelopeBottom = sketchBottom+4, sketchBottom+rest*0.55
 	bands.InfluenceTop, bands.InfluenceBottom = bands.EnvelopeBottom+18, height-6
 	b.movingSketch(in, bands.MemberY)
 	b.envelopeBand(in, &bands)
@@ -106,7 +108,7 @@ func (b *builder) movingSketch(in MovingInput, y float32) {
 	for _, p := range points {
 		biggest = max(biggest, -p.Transverse)
 	}
-	arrowTop := y - memberWidth/2 - 46
+	arrowTop := y - memberWidth/2 - movingArrow
 	for _, d := range lines {
 		a, c := b.sx(d.Points[0].X), b.sx(d.Points[1].X)
 		band := arrowTop + 18
@@ -117,9 +119,9 @@ func (b *builder) movingSketch(in MovingInput, y float32) {
 	}
 	for i, p := range points {
 		x := b.sx(p.X)
-		h := float32(46)
+		h := float32(movingArrow)
 		if biggest > 0 {
-			h = 22 + 24*float32(-p.Transverse/biggest)
+			h = movingArrow/2 + movingArrow/2*float32(-p.Transverse/biggest)
 		}
 		b.arrow(Point{x, y - memberWidth/2 - 2 - h}, Point{x, y - memberWidth/2 - 2}, loadColour, 2, 8)
 		if i == 0 {
@@ -134,9 +136,11 @@ func (b *builder) movingSketch(in MovingInput, y float32) {
 	b.line(faintColour, 1, Point{b.sx(from), runY - 4}, Point{b.sx(from), runY + 4})
 	b.line(faintColour, 1, Point{b.sx(to), runY - 4}, Point{b.sx(to), runY + 4})
 	facing := map[moving.Direction]string{moving.Forward: "facing +x", moving.Backward: "facing −x"}[in.At.Direction]
-	b.label(fmt.Sprintf("%s, front at x = %s %s", trainName(t), b.format(units.Position, in.At.Front), facing), labelSize, loadColour, true, true,
-		labelSpot{8, 6, 0, 0})
+	b.text(fmt.Sprintf("%s, front at x = %s %s", trainName(t), b.format(units.Position, in.At.Front), facing), 8, 6, labelSize, 0, 0, loadColour, true)
 }
+
+// movingArrow is the length of the arrow of the heaviest axle, pixels.
+const movingArrow = 46
 
 // trainName names a train in the picture.
 func trainName(t *moving.Train) string {
