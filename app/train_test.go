@@ -75,3 +75,17 @@ func TestMovingWindowEditsTheProject(t *testing.T) {
 		t.Errorf("a train longer than the member was applied; status %q", mw.status.Text)
 	}
 }
+
+// Choosing a train with more axles lays the table out for all its rows:
+// none hides under the button below it.
+func TestMovingWindowShowsEveryAxle(t *testing.T) {
+	_, q, mw := runwayWindow(t)
+	mw.choose(1)
+	q.waitFor(t, "the cart's envelope", func() bool { return mw.env != nil && mw.env.Train.Name == "maintenance cart" })
+	if len(mw.axleRows) != 3 {
+		t.Fatalf("%d rows for the cart's 3 axles", len(mw.axleRows))
+	}
+	if got, need := mw.axles.Size().Height, mw.axles.MinSize().Height; got < need-0.5 {
+		t.Errorf("the axle table is %g high, its 3 rows need %g", got, need)
+	}
+}
