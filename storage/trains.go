@@ -90,17 +90,19 @@ func (r *reader) trains(top *fields) []moving.Train {
 	return out
 }
 
-// trainProblems are the problems of the project's trains on its member,
-// with their paths, and of their names as labels.
+// trainProblems are the problems of the project's trains themselves, with
+// their paths, and of their names as labels. Whether a train fits on its
+// member is not a file's problem: the member may be shortened after the
+// train was made, and a file must not stop opening for that; it is
+// reported when the train is used.
 func trainProblems(p *Project) []Problem {
 	var out []Problem
-	L := p.Model.Length()
 	for i, t := range p.Trains {
 		path := fmt.Sprintf("trains[%d]", i)
 		if fault := textFault(t.Name, false); fault != "" {
 			out = append(out, Problem{Path: path + ".name", Message: fault})
 		}
-		for _, q := range t.Problems(L) {
+		for _, q := range t.OwnProblems() {
 			where := path
 			if q.Key != "" {
 				where += "." + q.Key

@@ -67,8 +67,7 @@ func TestTrainProblemsInFiles(t *testing.T) {
 		name, trains, path, says string
 	}{
 		{"zero spacing", `[{"axles": [{"load": 1000}, {"load": 1000, "spacing": 0}]}]`, "trains[0].axles[1].spacing", "must be above zero"},
-		{"does not fit", `[{"name": "long", "axles": [{"load": 1000}, {"load": 1000, "spacing": 9}]}]`, "trains[0]", `train "long": the train is 9 m long and does not fit`},
-		{"millions of positions", `[{"axles": [{"load": 1000}], "step": 1e-6}]`, "trains[0].step", "Stave takes at most 100000"},
+		{"negative step", `[{"axles": [{"load": 1000}], "step": -0.1}]`, "trains[0].step", `train 1: the step is -0.1 m`},
 		{"unknown direction", `[{"axles": [{"load": 1000}], "direction": "sideways"}]`, "trains[0].direction", `"sideways" is not a direction`},
 		{"unknown key", `[{"axles": [{"load": 1000, "weight": 3}]}]`, "trains[0].axles[0].weight", ""},
 		{"missing load", `[{"axles": [{"spacing": 2}]}]`, "trains[0].axles[0].load", ""},
@@ -88,5 +87,25 @@ func TestTrainProblemsInFiles(t *testing.T) {
 			}
 			t.Errorf("problems %v: want one at %s saying %q", le.Problems, c.path, c.says)
 		})
+	}
+}
+
+// A train that does not fit on the member, or whose step gives too many
+// positions on it, stays in the file: shortening the member in the window
+// must not make a file that no longer opens. It is reported when used.
+func TestTrainsThatDoNotFitStillOpen(t *testing.T) {
+	p := goldenProject() // a member of 4 m
+	p.Trains = []moving.Train{
+		{Name: "long", Axles: []moving.Axle{{Load: 1000}, {Load: 1000, Spacing: 9}}},
+		{Name: "fine", Axles: []moving.Axle{{Load: 1000}}, Step: 1e-6},
+	}
+	back, err := Unmarshal(mustMarshal(t, p))
+	if err != nil {
+		t.Fatalf("the file does not open: %v", err)
+	}
+	for i, says := range []string{"does not fit on the 4 m", "Stave takes at most 100000"} {
+		if err := back.Trains[i].Check(back.Model.Length(), i); err == nil || !strings.Contains(err.Error(), says) {
+			t.Errorf("train %d: %v, want a message saying %q", i+1, err, says)
+		}
 	}
 }

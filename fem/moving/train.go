@@ -125,13 +125,49 @@ type Problem struct {
 	Key, Message string
 }
 
-// Problems lists everything wrong with t on a member of length L.
+// Problems lists everything wrong with t on a member of length L: its own
+// problems (OwnProblems), then whether its run lies on the member, whether
+// it fits on its run and how many positions its step gives.
 func (t *Train) Problems(L float64) []Problem {
+	out := t.OwnProblems()
+	if len(out) > 0 {
+		return out // the rest needs a sound train
+	}
+	add := func(key, format string, args ...any) {
+		out = append(out, Problem{key, fmt.Sprintf(format, args...)})
+	}
+	from, to := t.Run(L)
+	switch {
+	case !(from >= 0) || !finite(from) || from >= L:
+		add("from", "the train's run starts at x = %s m, which is not on the member (0 to %s m)", trim(from), trim(L))
+	case !(to > from) || !finite(to) || to > L*(1+keyTolerance):
+		add("to", "the train's run ends at x = %s m: enter a point after its start (%s m) and on the member (up to %s m), or 0 for the member's end", trim(t.To), trim(from), trim(L))
+	}
+	if len(out) > 0 {
+		return out
+	}
+	run, length := to-from, t.Length()
+	if length > run*(1+keyTolerance) {
+		add("", "the train is %s m long and does not fit on the %s m it runs along (x = %s to %s m): shorten the train or lengthen its run", trim(length), trim(run), trim(from), trim(to))
+		return out
+	}
+	if n := positions(run-length, t.Step); t.Step > 0 && n > MaxPositions {
+		add("step", "a step of %s m takes %d positions along the %s m the train can move; Stave takes at most %d: enter a step of at least %s m", trim(t.Step), n, trim(run-length), MaxPositions, trim((run-length)/(MaxPositions-1)))
+	}
+	return out
+}
+
+func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
+
+// OwnProblems lists what is wrong with t whatever member it runs on: its
+// loads, spacings, uniform load, direction and step. A file refuses these;
+// the rest (Problems) depends on the member, which may change after the
+// train was made, and is reported when the train is used.
+func (t *Train) OwnProblems() []Problem {
 	var out []Problem
 	add := func(key, format string, args ...any) {
 		out = append(out, Problem{key, fmt.Sprintf(format, args...)})
 	}
-	finite := func(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
 	if len(t.Axles) == 0 && t.Uniform.Load == 0 {
 		add("", "it has no loads: give it at least one axle or a uniform load")
 	}
@@ -160,25 +196,14 @@ func (t *Train) Problems(L float64) []Problem {
 	if t.Direction < BothWays || t.Direction > Backward {
 		add("direction", "the direction is not one of %s", strings.Join(directionNames[:], ", "))
 	}
-	from, to := t.Run(L)
-	switch {
-	case !(from >= 0) || !finite(from) || from >= L:
-		add("from", "the train's run starts at x = %s m, which is not on the member (0 to %s m)", trim(from), trim(L))
-	case !(to > from) || !finite(to) || to > L*(1+keyTolerance):
-		add("to", "the train's run ends at x = %s m: enter a point after its start (%s m) and on the member (up to %s m), or 0 for the member's end", trim(t.To), trim(from), trim(L))
+	if !(t.From >= 0) || !finite(t.From) {
+		add("from", "the train's run starts at x = %s m: enter zero or more", trim(t.From))
 	}
-	if len(out) > 0 {
-		return out // the rest needs a sound train and run
-	}
-	run, length := to-from, t.Length()
-	if length > run*(1+keyTolerance) {
-		add("", "the train is %s m long and does not fit on the %s m it runs along (x = %s to %s m): shorten the train or lengthen its run", trim(length), trim(run), trim(from), trim(to))
-		return out
+	if !(t.To >= 0) || !finite(t.To) {
+		add("to", "the train's run ends at x = %s m: enter a point on the member, or 0 for the member's end", trim(t.To))
 	}
 	if !(t.Step >= 0) || !finite(t.Step) {
 		add("step", "the step is %s m: enter a step above zero, or 0 to take it from the mesh", trim(t.Step))
-	} else if n := positions(run-length, t.Step); t.Step > 0 && n > MaxPositions {
-		add("step", "a step of %s m takes %d positions along the %s m the train can move; Stave takes at most %d: enter a step of at least %s m", trim(t.Step), n, trim(run-length), MaxPositions, trim((run-length)/(MaxPositions-1)))
 	}
 	return out
 }
