@@ -162,6 +162,11 @@ func (r *run) setKeys(keys []float64) {
 	r.fixed = append(r.fixed, r.front(r.n-1))
 	slices.Sort(r.fixed)
 	r.fixed = slices.Compact(r.fixed)
+	if r.n == 1 {
+		// One position: first and last are one, and the one stretch of
+		// positions runs from it to itself.
+		r.fixed = []float64{r.s0, r.s0}
+	}
 }
 
 // within appends the fronts that put an axle or an end of the uniform load

@@ -267,3 +267,33 @@ func TestCombinedEnvelope(t *testing.T) {
 		}
 	}
 }
+
+// A uniform load train as long as a simple span has one position, the whole
+// span loaded: the moment at midspan is q·L²/8, the end reactions q·L/2 and
+// the midspan deflection 5·q·L⁴/(384·E·I) down (simple beam, uniform load;
+// AISC beam diagrams / Roark's Formulas, from memory).
+func TestUniformTrainOverTheWholeSpan(t *testing.T) {
+	const L, q = 8.0, 12e3
+	m := beam(L, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: L, Kind: fem.Roller})
+	p, in := prepared(t, m)
+	tr := &Train{Uniform: UniformLoad{Load: q, Length: L}, Direction: Forward}
+	e, err := in.Envelope(tr, p.Mesh(), []float64{0, L / 4, L / 2})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if e.Positions != 1 {
+		t.Fatalf("%d positions, want the one", e.Positions)
+	}
+	ei := m.Segments[0].Material.Elastic * m.Segments[0].Section.SecondMoment
+	if got, want := e.Max[3][2], q*L*L/8; !near(got, want, 1e-12) {
+		t.Errorf("midspan moment %.12g, want qL²/8 = %.12g", got, want)
+	}
+	if got, want := e.Min[0][2], -5*q*L*L*L*L/(384*ei); !near(got, want, 1e-12) {
+		t.Errorf("midspan deflection %.12g, want −5qL⁴/(384EI) = %.12g", got, want)
+	}
+	for _, r := range e.Reactions {
+		if !near(r.Max, q*L/2, 1e-12) || !near(r.Min, q*L/2, 1e-12) {
+			t.Errorf("reaction of support %d from %g to %g, want qL/2 = %g", r.Support+1, r.Min, r.Max, q*L/2)
+		}
+	}
+}
