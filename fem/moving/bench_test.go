@@ -18,13 +18,20 @@ func cpuTime(b *testing.B) time.Duration {
 	return time.Duration(u.Utime.Nano() + u.Stime.Nano())
 }
 
+// twoSpans is the benchmarks' member: two continuous spans of 15 m on
+// 10,000 elements (invented).
+func twoSpans() *fem.Model {
+	m := beam(30, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: 15, Kind: fem.Roller}, fem.Support{X: 30, Kind: fem.Roller})
+	m.Mesh = fem.MeshSettings{Elements: 10000}
+	return m
+}
+
 // benchmarkTrain is the case the speed target names: a four-axle train
 // over 2,000 positions on a beam of 10,000 elements, the envelope taken at
 // every node. The beam is two continuous spans of 15 m (invented), the
 // train an invented four-axle vehicle 6.6 m long.
 func benchmarkTrain(b *testing.B, d Direction, positions int) {
-	m := beam(30, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: 15, Kind: fem.Roller}, fem.Support{X: 30, Kind: fem.Roller})
-	m.Mesh = fem.MeshSettings{Elements: 10000}
+	m := twoSpans()
 	p, err := fem.Prepare(m)
 	if err != nil {
 		b.Fatal(err)
@@ -71,8 +78,7 @@ func BenchmarkEnvelopeFourAxles20000Positions(b *testing.B) {
 // The finite element influence line on the same beam: one solve per load
 // position on one factorization, reported per position.
 func BenchmarkFELinePerPosition10000Elements(b *testing.B) {
-	m := beam(30, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: 15, Kind: fem.Roller}, fem.Support{X: 30, Kind: fem.Roller})
-	m.Mesh = fem.MeshSettings{Elements: 10000}
+	m := twoSpans()
 	p, err := fem.Prepare(m)
 	if err != nil {
 		b.Fatal(err)
@@ -93,8 +99,7 @@ func BenchmarkFELinePerPosition10000Elements(b *testing.B) {
 
 // Setting up the influence lines of the same member: the two sweeps.
 func BenchmarkNewInfluence(b *testing.B) {
-	m := beam(30, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: 15, Kind: fem.Roller}, fem.Support{X: 30, Kind: fem.Roller})
-	m.Mesh = fem.MeshSettings{Elements: 10000}
+	m := twoSpans()
 	for range b.N {
 		p, err := fem.Prepare(m)
 		if err != nil {
