@@ -103,6 +103,8 @@ func (w *Window) mainMenu() *fyne.MainMenu {
 		w.item("Table of the nodal loads…", nil, w.showNodalTable),
 		fyne.NewMenuItemSeparator(),
 		w.item("Check limits…", nil, w.showCheckLimits),
+		fyne.NewMenuItemSeparator(),
+		w.item("Moving loads…", nil, w.showMovingLoads),
 	)
 	member := fyne.NewMenu("Member",
 		w.item("Section calculator…", nil, w.showSectionCalculator),

@@ -16,6 +16,7 @@ import (
 	"stave/fem"
 	"stave/fem/analysis"
 	"stave/fem/check"
+	"stave/fem/moving"
 	"stave/fem/units"
 	"stave/storage"
 )
@@ -90,6 +91,8 @@ type Window struct {
 	// earlierKept reports that the user kept a previous run's autosave for
 	// the next start: this window does not autosave over it.
 	earlierKept bool
+	// moving is the moving-loads window (train.go) while it is open.
+	moving *movingWindow
 }
 
 // options are the parts of a window that tests replace.
@@ -152,6 +155,7 @@ func cloneProject(p storage.Project) storage.Project {
 	c.Model = p.Model.Clone()
 	c.LoadOrder = append([]storage.LoadKind(nil), p.LoadOrder...)
 	c.CaseLoadOrder = append([][]storage.LoadKind(nil), p.CaseLoadOrder...)
+	c.Trains = moving.CloneTrains(p.Trains)
 	return c
 }
 
@@ -244,6 +248,9 @@ func (w *Window) modelChanged() {
 	w.ui.showMesh()
 	w.ui.cases.refresh()
 	w.updateTitle()
+	if w.moving != nil {
+		w.moving.modelChanged()
+	}
 }
 
 func (w *Window) undo() {

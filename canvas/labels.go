@@ -63,8 +63,8 @@ type label struct {
 type labelSpot struct{ x, y, ax, ay float32 }
 
 // text1 is a one-line label at a single spot, also its anchor.
-func text1(s string, size float32, c color.NRGBA, bold bool, spot labelSpot) label {
-	return label{lines: []string{s}, size: size, colour: c, bold: bold, at: Point{spot.x, spot.y}, spots: []labelSpot{spot}}
+func text1(s string, size float32, c color.NRGBA, bold bool, spot labelSpot, more ...labelSpot) label {
+	return label{lines: []string{s}, size: size, colour: c, bold: bold, at: Point{spot.x, spot.y}, spots: append([]labelSpot{spot}, more...)}
 }
 
 // ringSteps are the distances, px, of the rings of spots tried around a

@@ -431,6 +431,7 @@ func (r *reader) project(top *fields) *Project {
 	}
 	p.Model.TemperatureChange = top.number("temperature_change", "K", false)
 	r.cases(p, top)
+	p.Trains = r.trains(top)
 
 	mesh := top.object("mesh", true, `"mesh": {"elements": ...}`)
 	p.Model.Mesh = fem.MeshSettings{

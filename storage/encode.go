@@ -34,6 +34,7 @@ type (
 		TemperatureChange number            `json:"temperature_change,omitempty"`
 		Cases             []fileCase        `json:"cases,omitempty"`
 		Combinations      []fileCombination `json:"combinations,omitempty"`
+		Trains            []fileTrain       `json:"trains,omitempty"`
 		Mesh              fileMesh          `json:"mesh"`
 		View              fileView          `json:"view"`
 	}
@@ -338,6 +339,7 @@ func (c *converter) toFile(p *Project) fileProject {
 	}
 	f.Loads = c.loads(p)
 	f.Cases, f.Combinations = c.cases(p)
+	f.Trains = c.trains(p.Trains)
 	if m.Gravity != [2]float64{} {
 		f.SelfWeight = &fileGravity{X: c.num("self_weight.gravity_x", m.Gravity[0]), Y: c.num("self_weight.gravity_y", m.Gravity[1])}
 	}

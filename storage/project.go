@@ -1,6 +1,9 @@
 package storage
 
-import "stave/fem"
+import (
+	"stave/fem"
+	"stave/fem/moving"
+)
 
 // Project is everything a project file holds.
 type Project struct {
@@ -16,7 +19,9 @@ type Project struct {
 	// CaseLoadOrder is LoadOrder for the loads of each load case, in the
 	// order of Model.Cases; nil, or short, keeps point loads first.
 	CaseLoadOrder [][]LoadKind
-	View          View
+	// Trains are moving load trains (version 2, trains.go).
+	Trains []moving.Train
+	View   View
 }
 
 // LoadKind tells point loads from distributed loads in Project.LoadOrder.

@@ -25,6 +25,7 @@ func check(p *Project) []Problem {
 		add("", "%v", err)
 	}
 	problems = append(problems, caseProblems(p)...)
+	problems = append(problems, trainProblems(p)...)
 	v := p.View
 	if v.Units != SI && v.Units != US {
 		add("view.units", "%q is not a display unit system; use %q or %q", cut(string(v.Units)), SI, US)

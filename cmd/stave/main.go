@@ -6,6 +6,7 @@
 //	stave solve [--json] [--units SI|US] [--show NAME] FILE
 //	stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet | --multiples] [--elements N] [--dpi N] [--points N] [--units SI|US] [--show NAME]
 //	stave converge [--json] [--max N] [--target E] FILE
+//	stave influence FILE --quantity Q [--at X] [--support N] [--envelope] [--json]
 //	stave check [--json | --csv] [--workers N] FILE... | DIR
 //	stave bench [--json]
 //	stave version
@@ -84,6 +85,8 @@ const usage = `usage:
   stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet | --multiples]
                [--elements N] [--dpi N] [--points N] [--units SI|US] [--show NAME]
   stave converge [--json] [--max N] [--target E] FILE
+  stave influence FILE --quantity Q [--at X] [--side left|right] [--support N]
+               [--motion M] [--points N] [--envelope] [--json] [--units SI|US]
   stave check [--json | --csv] [--workers N] FILE... | DIR
   stave bench [--json]
   stave version
@@ -139,6 +142,8 @@ func dispatch(args []string, stdout io.Writer) error {
 		return exportCommand(args[1:], stdout)
 	case "converge":
 		return convergeCommand(args[1:], stdout)
+	case "influence":
+		return influenceCommand(args[1:], stdout)
 	case "check":
 		return checkCommand(args[1:], stdout, os.Stderr)
 	case "bench":

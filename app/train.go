@@ -1,0 +1,693 @@
+package app
+
+import (
+	"fmt"
+	"slices"
+	"strings"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/driver/desktop"
+	"fyne.io/fyne/v2/layout"
+	"fyne.io/fyne/v2/widget"
+
+	"stave/canvas"
+	"stave/fem"
+	"stave/fem/moving"
+	"stave/fem/units"
+)
+
+// The moving-loads window: a train defined in a small table, drawn on the
+// member and dragged along it while the chosen field follows; the envelope
+// of that field over all the train's positions; and the influence line of
+// the field at the point under the mouse (or pinned by a click, or a
+// support's reaction chosen from a list) with the train's worst positions
+// for it. Trains are the project's (storage.Project.Trains): editing one
+// here changes the project, which then has unsaved changes. The envelope is
+// worked out in the background, latest request wins; the rest is quick
+// enough to follow the mouse.
+type movingWindow struct {
+	w   *Window
+	win fyne.Window
+
+	index int // the train shown, in w.project.Trains; −1 for none
+
+	// The form.
+	trainSelect *widget.Select
+	name        *widget.Entry
+	direction   *widget.Select
+	from, to    *widget.Entry
+	step        *widget.Entry
+	axles       *fyne.Container
+	axleRows    []axleRow
+	formScroll  *container.Scroll // holds the form: laid out again when rows change
+	uniform     [3]*widget.Entry  // load, start, length
+
+	quantity     *widget.Select
+	targetSelect *widget.Select
+	pic          *movingPicture
+	readout      *widget.Label
+	status       *widget.Label
+
+	// What is shown.
+	quantityIndex int // into moving.EnvelopeQuantities
+	reaction      int // the support whose reaction's line is shown, or −1
+	pinned        bool
+	pointX        float64 // where the line reads the quantity, m
+	hoverX        float64
+	hovering      bool
+
+	// Results, for the model and train they were found for.
+	member  *fem.Member
+	infl    *moving.Influence
+	mesh    fem.Mesh
+	env     *moving.Envelope
+	line    *moving.Line
+	worst   []moving.Extreme
+	at      moving.Placement
+	current []float64
+	seq     uint64 // of the newest envelope asked for
+}
+
+// axleRow is one row of the axle table.
+type axleRow struct {
+	load, spacing *widget.Entry
+	row           *fyne.Container
+}
+
+// showMovingLoads opens the moving-loads window, or brings it to the front.
+func (w *Window) showMovingLoads() {
+	if len(w.project.Model.Segments) == 0 {
+		w.setStatus("moving loads need a member: draw one first")
+		return
+	}
+	if w.moving != nil {
+		w.moving.win.RequestFocus()
+		return
+	}
+	mw := &movingWindow{w: w, index: -1, reaction: -1, quantityIndex: slices.Index(moving.EnvelopeQuantities, fem.QBendingMoment)}
+	mw.win = w.app.NewWindow("Stave — moving loads")
+	mw.build()
+	mw.win.SetOnClosed(func() { w.moving = nil })
+	w.moving = mw
+	if len(w.project.Trains) > 0 {
+		mw.choose(0)
+	} else {
+		mw.modelChanged()
+	}
+	mw.win.Resize(fyne.NewSize(1280, 760))
+	mw.win.Show()
+}
+
+func (mw *movingWindow) build() {
+	u := mw.w.units
+	mw.readout = widget.NewLabel("")
+	mw.readout.Wrapping = fyne.TextWrapWord
+	mw.status = widget.NewLabel("")
+	mw.status.Wrapping = fyne.TextWrapWord
+	mw.pic = newMovingPicture(mw)
+	mw.trainSelect = widget.NewSelect(nil, func(s string) {
+		if i := slices.Index(mw.trainSelect.Options, s); i >= 0 && i != mw.index {
+			mw.choose(i)
+		}
+	})
+	mw.name = widget.NewEntry()
+	mw.direction = widget.NewSelect([]string{"both", "forward", "backward"}, nil)
+	mw.from, mw.to, mw.step = widget.NewEntry(), widget.NewEntry(), widget.NewEntry()
+	mw.to.SetPlaceHolder("the member's end")
+	mw.step.SetPlaceHolder("from the mesh")
+	for i := range mw.uniform {
+		mw.uniform[i] = widget.NewEntry()
+	}
+	mw.uniform[0].SetPlaceHolder("none")
+	mw.axles = container.NewVBox()
+	form := container.New(layout.NewFormLayout(),
+		widget.NewLabel("Name"), mw.name,
+		widget.NewLabel("Moves"), mw.direction,
+		widget.NewLabel("From x"), mw.from,
+		widget.NewLabel("To x"), mw.to,
+		widget.NewLabel("Step"), mw.step,
+	)
+	uniform := container.New(layout.NewFormLayout(),
+		widget.NewLabel("Load ("+u.Unit(units.LineLoad).Symbol+")"), mw.uniform[0],
+		widget.NewLabel("Behind the front"), mw.uniform[1],
+		widget.NewLabel("Length"), mw.uniform[2],
+	)
+	left := container.NewVBox(
+		heading("Train"),
+		container.NewBorder(nil, nil, nil, container.NewHBox(
+			widget.NewButton("New", mw.newTrain), widget.NewButton("Delete", mw.deleteTrain)), mw.trainSelect),
+		form,
+		heading(fmt.Sprintf("Axles, front first (load in %s, spacing from the axle before in %s)", u.Unit(units.Force).Symbol, u.Unit(units.Position).Symbol)),
+		mw.axles,
+		widget.NewButton("Add an axle", func() { mw.addAxleRow(moving.Axle{}); mw.rowsChanged() }),
+		heading("Uniform load moving with it"),
+		uniform,
+		widget.NewButton("Apply", mw.apply),
+	)
+	names := make([]string, len(moving.EnvelopeQuantities))
+	for i, q := range moving.EnvelopeQuantities {
+		names[i] = q.String()
+	}
+	mw.quantity = widget.NewSelect(names, nil)
+	mw.quantity.SetSelected(names[mw.quantityIndex])
+	mw.quantity.OnChanged = func(s string) {
+		mw.quantityIndex = slices.Index(names, s)
+		mw.showLine()
+	}
+	mw.targetSelect = widget.NewSelect(nil, nil)
+	mw.targetSelect.OnChanged = func(s string) {
+		mw.reaction = slices.Index(mw.targetSelect.Options, s) - 1
+		mw.showLine()
+	}
+	warning := widget.NewLabelWithStyle(caution, fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
+	warning.Importance = widget.WarningImportance
+	warning.Wrapping = fyne.TextWrapWord
+	wide := func(o fyne.CanvasObject, w float32) fyne.CanvasObject {
+		return container.NewGridWrap(fyne.NewSize(w, o.MinSize().Height), o)
+	}
+	top := newFlow(widget.NewLabel("Field"), wide(mw.quantity, 190), widget.NewLabel("Influence line of"), wide(mw.targetSelect, 380),
+		widget.NewButton("Worst position", mw.toWorst))
+	center := container.NewBorder(top, container.NewVBox(mw.readout, widget.NewLabel("Drag the train along the member; the influence line follows the mouse, a click pins it to a point (click again to let go).")), nil, nil, mw.pic)
+	mw.formScroll = container.NewVScroll(left)
+	split := container.NewHSplit(mw.formScroll, center)
+	split.SetOffset(0.27)
+	mw.win.SetContent(container.NewBorder(nil, container.NewVBox(widget.NewSeparator(), mw.status, warning), nil, nil, split))
+}
+
+// refreshChoices lists the trains and the reactions a line may be of.
+func (mw *movingWindow) refreshChoices() {
+	var names []string
+	for i := range mw.w.project.Trains {
+		names = append(names, mw.w.project.Trains[i].Label(i))
+	}
+	mw.trainSelect.Options = names
+	if mw.index >= 0 && mw.index < len(names) {
+		mw.trainSelect.Selected = names[mw.index]
+	} else {
+		mw.trainSelect.Selected = ""
+	}
+	mw.trainSelect.Refresh()
+	opts := []string{"the field at the point under the mouse"}
+	for i, s := range mw.w.project.Model.Supports {
+		if s.Holds(fem.Transverse) {
+			opts = append(opts, fmt.Sprintf("the reaction of support %d (%s at %s)", i+1, s.Kind, mw.w.units.Format(units.Position, s.X)))
+		}
+	}
+	mw.targetSelect.Options = opts
+	if mw.reaction+1 >= len(opts) {
+		mw.reaction = -1
+	}
+	mw.targetSelect.Selected = opts[mw.reaction+1]
+	mw.targetSelect.Refresh()
+}
+
+// supportOf is the support index of reaction choice k (−1 for none).
+func (mw *movingWindow) supportOf(k int) int {
+	n := -1
+	for i, s := range mw.w.project.Model.Supports {
+		if s.Holds(fem.Transverse) {
+			n++
+			if n == k {
+				return i
+			}
+		}
+	}
+	return -1
+}
+
+// choose shows train i of the project in the form.
+func (mw *movingWindow) choose(i int) {
+	mw.index = i
+	t := mw.w.project.Trains[i]
+	u := mw.w.units
+	mw.name.SetText(t.Name)
+	mw.direction.SetSelected(t.Direction.String())
+	mw.from.SetText(formatOrEmpty(u, units.Position, t.From, false))
+	mw.to.SetText(formatOrEmpty(u, units.Position, t.To, true))
+	mw.step.SetText(formatOrEmpty(u, units.Position, t.Step, true))
+	mw.axles.RemoveAll()
+	mw.axleRows = nil
+	for _, a := range t.Axles {
+		mw.addAxleRow(a)
+	}
+	mw.rowsChanged()
+	mw.uniform[0].SetText(formatOrEmpty(u, units.LineLoad, t.Uniform.Load, true))
+	mw.uniform[1].SetText(formatOrEmpty(u, units.Position, t.Uniform.Start, t.Uniform.Load == 0))
+	mw.uniform[2].SetText(formatOrEmpty(u, units.Position, t.Uniform.Length, t.Uniform.Load == 0))
+	mw.modelChanged()
+}
+
+// formatOrEmpty writes v in display units without the unit symbol, or
+// nothing for a zero that means "not given" (empty).
+func formatOrEmpty(u units.System, k units.Kind, v float64, empty bool) string {
+	if v == 0 && empty {
+		return ""
+	}
+	return units.FormatNumber(u.ToDisplay(k, v))
+}
+
+func (mw *movingWindow) addAxleRow(a moving.Axle) {
+	u := mw.w.units
+	r := axleRow{load: widget.NewEntry(), spacing: widget.NewEntry()}
+	r.load.SetPlaceHolder("load")
+	r.spacing.SetPlaceHolder("spacing")
+	if a.Load != 0 {
+		r.load.SetText(formatOrEmpty(u, units.Force, a.Load, true))
+	}
+	if len(mw.axleRows) == 0 {
+		r.spacing.SetPlaceHolder("(the front)")
+		r.spacing.Disable()
+	} else {
+		r.spacing.SetText(formatOrEmpty(u, units.Position, a.Spacing, true))
+	}
+	remove := widget.NewButton("×", nil)
+	r.row = container.NewBorder(nil, nil, widget.NewLabel(fmt.Sprintf("%d", len(mw.axleRows)+1)), remove, container.NewGridWithColumns(2, r.load, r.spacing))
+	remove.OnTapped = func() {
+		k := slices.IndexFunc(mw.axleRows, func(o axleRow) bool { return o.row == r.row })
+		if k < 0 {
+			return
+		}
+		axles, _ := mw.readAxles()
+		mw.axles.RemoveAll()
+		mw.axleRows = nil
+		for j, a := range axles {
+			if j != k {
+				mw.addAxleRow(a)
+			}
+		}
+		mw.rowsChanged()
+	}
+	mw.axleRows = append(mw.axleRows, r)
+	mw.axles.Add(r.row)
+}
+
+// rowsChanged lays the form out again for the axle table's new rows.
+func (mw *movingWindow) rowsChanged() {
+	if mw.formScroll == nil {
+		return // still being built
+	}
+	mw.formScroll.Content.Refresh()
+	mw.formScroll.Refresh()
+}
+
+// readAxles reads the axle table; a row left empty is skipped.
+func (mw *movingWindow) readAxles() ([]moving.Axle, error) {
+	u := mw.w.units
+	var out []moving.Axle
+	for i, r := range mw.axleRows {
+		if strings.TrimSpace(r.load.Text) == "" && strings.TrimSpace(r.spacing.Text) == "" {
+			continue
+		}
+		var a moving.Axle
+		var err error
+		if a.Load, err = u.Parse(units.Force, r.load.Text); err != nil {
+			return out, fmt.Errorf("axle %d, load: %v", i+1, err)
+		}
+		if len(out) > 0 {
+			if a.Spacing, err = u.Parse(units.Position, r.spacing.Text); err != nil {
+				return out, fmt.Errorf("axle %d, spacing: %v", i+1, err)
+			}
+		}
+		out = append(out, a)
+	}
+	return out, nil
+}
+
+// readTrain reads the form into a train.
+func (mw *movingWindow) readTrain() (moving.Train, error) {
+	u := mw.w.units
+	t := moving.Train{Name: strings.TrimSpace(mw.name.Text)}
+	d, _ := moving.ParseDirection(mw.direction.Selected)
+	t.Direction = d
+	read := func(e *widget.Entry, k units.Kind, what string) (float64, error) {
+		if strings.TrimSpace(e.Text) == "" {
+			return 0, nil
+		}
+		v, err := u.Parse(k, e.Text)
+		if err != nil {
+			return 0, fmt.Errorf("%s: %v", what, err)
+		}
+		return v, nil
+	}
+	var err error
+	if t.Axles, err = mw.readAxles(); err != nil {
+		return t, err
+	}
+	fields := []struct {
+		e    *widget.Entry
+		k    units.Kind
+		what string
+		v    *float64
+	}{
+		{mw.from, units.Position, "from", &t.From}, {mw.to, units.Position, "to", &t.To}, {mw.step, units.Position, "step", &t.Step},
+		{mw.uniform[0], units.LineLoad, "uniform load", &t.Uniform.Load}, {mw.uniform[1], units.Position, "uniform load start", &t.Uniform.Start},
+		{mw.uniform[2], units.Position, "uniform load length", &t.Uniform.Length},
+	}
+	for _, f := range fields {
+		if *f.v, err = read(f.e, f.k, f.what); err != nil {
+			return t, err
+		}
+	}
+	return t, nil
+}
+
+// apply puts the form's train into the project when it is sound.
+func (mw *movingWindow) apply() {
+	if mw.index < 0 {
+		mw.newTrain()
+		return
+	}
+	t, err := mw.readTrain()
+	if err == nil {
+		err = t.Check(mw.w.project.Model.Length(), mw.index)
+	}
+	if err != nil {
+		mw.status.SetText("not applied: " + err.Error())
+		return
+	}
+	mw.w.project.Trains[mw.index] = t
+	mw.w.updateTitle()
+	mw.status.SetText("applied " + t.Label(mw.index))
+	mw.modelChanged()
+}
+
+// newTrain adds a two-axle train to the project and shows it.
+func (mw *movingWindow) newTrain() {
+	L := mw.w.project.Model.Length()
+	spacing := min(2, L/4)
+	t := moving.Train{Name: fmt.Sprintf("train %d", len(mw.w.project.Trains)+1),
+		Axles: []moving.Axle{{Load: 10e3}, {Load: 10e3, Spacing: spacing}}}
+	mw.w.project.Trains = append(mw.w.project.Trains, t)
+	mw.w.updateTitle()
+	mw.choose(len(mw.w.project.Trains) - 1)
+}
+
+// deleteTrain removes the train shown from the project.
+func (mw *movingWindow) deleteTrain() {
+	if mw.index < 0 {
+		return
+	}
+	ts := mw.w.project.Trains
+	mw.w.project.Trains = append(ts[:mw.index:mw.index], ts[mw.index+1:]...)
+	mw.w.updateTitle()
+	mw.index = -1
+	if len(mw.w.project.Trains) > 0 {
+		mw.choose(0)
+		return
+	}
+	mw.env, mw.line, mw.worst, mw.current = nil, nil, nil, nil
+	mw.modelChanged()
+}
+
+// modelChanged works out the member's influence lines again and, in the
+// background, the shown train's envelope.
+func (mw *movingWindow) modelChanged() {
+	mw.refreshChoices()
+	m := mw.w.project.Model.Clone()
+	mw.member, mw.infl, mw.env = nil, nil, nil
+	p, err := fem.Prepare(&m)
+	if err == nil {
+		mw.member = p
+		mw.mesh = p.Mesh()
+		mw.infl, err = moving.New(p)
+	}
+	if err != nil {
+		mw.status.SetText("no influence lines: " + err.Error())
+		mw.pic.Refresh()
+		return
+	}
+	mw.showLine()
+	if mw.index < 0 {
+		mw.status.SetText("no train yet: press New to add one")
+		return
+	}
+	t := mw.w.project.Trains[mw.index]
+	if err := t.Check(m.Length(), mw.index); err != nil {
+		mw.status.SetText(err.Error())
+		return
+	}
+	mw.seq++
+	seq, infl, mesh := mw.seq, mw.infl, mw.mesh
+	go func() {
+		env, err := infl.Envelope(&t, mesh, nil)
+		mw.w.post(func() { mw.envelopeReady(seq, env, err) })
+	}()
+}
+
+// envelopeReady takes an envelope found in the background, unless the
+// model or the train changed since it was asked for.
+func (mw *movingWindow) envelopeReady(seq uint64, env *moving.Envelope, err error) {
+	if seq != mw.seq {
+		return
+	}
+	if err != nil {
+		mw.status.SetText(err.Error())
+		return
+	}
+	mw.env = env
+	if !mw.pinned {
+		// The line starts where the field is largest.
+		hi, _ := env.Worst(moving.EnvelopeQuantities[mw.quantityIndex])
+		mw.pointX = hi.X
+	}
+	mw.status.SetText(fmt.Sprintf("%s: %d positions in each direction it moves, %s apart",
+		mw.w.project.Trains[mw.index].Label(mw.index), env.Positions, mw.w.units.Format(units.Position, env.Step)))
+	mw.showLine()
+	mw.toWorst()
+}
+
+// target is the influence line's target now.
+func (mw *movingWindow) target() moving.Target {
+	if s := mw.supportOf(mw.reaction); s >= 0 {
+		return moving.Target{Reaction: true, Support: s, Motion: fem.Transverse}
+	}
+	x := mw.pointX
+	if mw.hovering && !mw.pinned {
+		x = mw.hoverX
+	}
+	return moving.Target{Quantity: moving.EnvelopeQuantities[mw.quantityIndex], X: x, Side: fem.Right}
+}
+
+// showLine works out the influence line of the target and the train's
+// worst positions for it.
+func (mw *movingWindow) showLine() {
+	mw.line, mw.worst = nil, nil
+	if mw.infl != nil {
+		if l, err := mw.infl.Line(mw.target()); err == nil {
+			mw.line = l
+		}
+	}
+	if mw.line != nil && mw.env != nil {
+		t := mw.w.project.Trains[mw.index]
+		if hi, lo, err := mw.infl.Worst(&t, mw.mesh, mw.line.Target); err == nil {
+			mw.worst = []moving.Extreme{hi, lo}
+		}
+	}
+	mw.followTrain()
+}
+
+// toWorst moves the train to its worst position for the line's target, or
+// for the field's largest value when there is no line.
+func (mw *movingWindow) toWorst() {
+	switch {
+	case len(mw.worst) > 0:
+		mw.at = mw.worst[0].Placement
+	case mw.env != nil:
+		hi, _ := mw.env.Worst(moving.EnvelopeQuantities[mw.quantityIndex])
+		mw.at = hi.Placement
+	default:
+		return
+	}
+	mw.followTrain()
+}
+
+// dragTrain moves the train's front by dx metres from where the drag began,
+// to the nearest of its positions.
+func (mw *movingWindow) dragTrain(start moving.Placement, dx float64) {
+	if mw.env == nil {
+		return
+	}
+	mw.at = mw.env.Nearest(moving.Placement{Direction: start.Direction, Front: start.Front + dx})
+	mw.followTrain()
+}
+
+// followTrain solves the train where it stands, in closed form, and draws.
+func (mw *movingWindow) followTrain() {
+	mw.current = nil
+	if mw.env != nil && mw.index >= 0 {
+		t := mw.w.project.Trains[mw.index]
+		tm := t.Model(&mw.w.project.Model, mw.at)
+		if e, err := fem.SolveExact(&tm); err == nil {
+			q := moving.EnvelopeQuantities[mw.quantityIndex]
+			mw.current = make([]float64, len(mw.env.Stations))
+			for s, x := range mw.env.Stations {
+				f := e.At(x, fem.Right)
+				mw.current[s] = q.Of(&f)
+			}
+		}
+	}
+	mw.showReadout()
+	mw.pic.Refresh()
+}
+
+// input is what the picture shows.
+func (mw *movingWindow) input() canvas.MovingInput {
+	in := canvas.MovingInput{Model: &mw.w.project.Model, Units: mw.w.units, Quantity: mw.quantityIndex,
+		Envelope: mw.env, Current: mw.current, Line: mw.line, Worst: mw.worst, At: mw.at,
+		HoverX: mw.hoverX, Hovering: mw.hovering}
+	if mw.index >= 0 && mw.env != nil {
+		in.Train = &mw.w.project.Trains[mw.index]
+	}
+	return in
+}
+
+// showReadout writes the envelope, the train's field and the line at the
+// mouse (or the pinned point).
+func (mw *movingWindow) showReadout() {
+	u := mw.w.units
+	x := mw.pointX
+	if mw.hovering {
+		x = mw.hoverX
+	}
+	q := moving.EnvelopeQuantities[mw.quantityIndex]
+	k := q.Info().Unit
+	parts := []string{"x = " + u.Format(units.Position, x)}
+	if e := mw.env; e != nil {
+		s := nearestStation(e.Stations, x)
+		hi, lo := e.Placement(e.MaxAt[mw.quantityIndex][s]), e.Placement(e.MinAt[mw.quantityIndex][s])
+		parts = append(parts, fmt.Sprintf("%s at the station x = %s over all positions: largest %s (front at %s %s), smallest %s (front at %s %s)", q,
+			u.Format(units.Position, e.Stations[s]), u.Format(k, e.Max[mw.quantityIndex][s]), u.Format(units.Position, hi.Front), hi.Direction,
+			u.Format(k, e.Min[mw.quantityIndex][s]), u.Format(units.Position, lo.Front), lo.Direction))
+		if mw.current != nil {
+			parts = append(parts, fmt.Sprintf("with the front at %s: %s", u.Format(units.Position, mw.at.Front), u.Format(k, mw.current[s])))
+		}
+	}
+	if mw.line != nil && len(mw.worst) == 2 {
+		what := fmt.Sprintf("%s reaction of support %d", mw.line.Target.Motion, mw.line.Target.Support+1)
+		if !mw.line.Target.Reaction {
+			what = fmt.Sprintf("%s at x = %s", mw.line.Target.Quantity, u.Format(units.Position, mw.line.Target.X))
+		}
+		parts = append(parts, fmt.Sprintf("the train's extremes of the %s: largest %s, smallest %s", what,
+			u.Format(targetUnit(mw.line.Target), mw.worst[0].Value), u.Format(targetUnit(mw.line.Target), mw.worst[1].Value)))
+	}
+	mw.readout.SetText(strings.Join(parts, "; "))
+}
+
+// targetUnit is the kind of value a target is.
+func targetUnit(t moving.Target) units.Kind {
+	switch {
+	case t.Reaction && t.Motion == fem.Rotation:
+		return units.Moment
+	case t.Reaction:
+		return units.Force
+	}
+	return t.Quantity.Info().Unit
+}
+
+// movingPicture draws the moving-loads scene and turns the mouse into
+// moves of the train and of the line's point.
+type movingPicture struct {
+	widget.BaseWidget
+	mw        *movingWindow
+	dragStart *moving.Placement
+	dragX     float32
+}
+
+var (
+	_ fyne.Draggable    = (*movingPicture)(nil)
+	_ fyne.Tappable     = (*movingPicture)(nil)
+	_ desktop.Hoverable = (*movingPicture)(nil)
+)
+
+func newMovingPicture(mw *movingWindow) *movingPicture {
+	p := &movingPicture{mw: mw}
+	p.ExtendBaseWidget(p)
+	return p
+}
+
+func (p *movingPicture) CreateRenderer() fyne.WidgetRenderer { return &movingRenderer{p: p} }
+
+func (p *movingPicture) MinSize() fyne.Size { return fyne.NewSize(400, 300) }
+
+// modelX is the member x under the screen x px, as the scene places it.
+func (p *movingPicture) modelX(px float32) float64 {
+	size := p.Size()
+	v := canvas.NewView(size.Width, size.Height)
+	v.Fit(&p.mw.w.project.Model)
+	return min(max(v.ToModelX(px), 0), p.mw.w.project.Model.Length())
+}
+
+func (p *movingPicture) Dragged(ev *fyne.DragEvent) {
+	if p.dragStart == nil {
+		start := p.mw.at
+		p.dragStart, p.dragX = &start, ev.Position.X-ev.Dragged.DX
+	}
+	dx := p.modelX(ev.Position.X) - p.modelX(p.dragX)
+	p.mw.dragTrain(*p.dragStart, dx)
+}
+
+func (p *movingPicture) DragEnd() { p.dragStart = nil }
+
+func (p *movingPicture) Tapped(ev *fyne.PointEvent) {
+	mw := p.mw
+	if mw.pinned {
+		mw.pinned = false
+	} else {
+		mw.pinned, mw.pointX = true, p.modelX(ev.Position.X)
+	}
+	mw.showLine()
+}
+
+func (p *movingPicture) MouseIn(ev *desktop.MouseEvent) { p.MouseMoved(ev) }
+
+func (p *movingPicture) MouseMoved(ev *desktop.MouseEvent) {
+	mw := p.mw
+	mw.hovering, mw.hoverX = true, p.modelX(ev.Position.X)
+	if mw.pinned || mw.supportOf(mw.reaction) >= 0 {
+		mw.showReadout()
+		p.Refresh()
+		return
+	}
+	mw.showLine()
+}
+
+func (p *movingPicture) MouseOut() {
+	p.mw.hovering = false
+	p.mw.showReadout()
+	p.Refresh()
+}
+
+type movingRenderer struct {
+	p       *movingPicture
+	objects []fyne.CanvasObject
+}
+
+func (r *movingRenderer) Layout(fyne.Size) { r.Refresh() }
+
+func (r *movingRenderer) MinSize() fyne.Size { return r.p.MinSize() }
+
+func (r *movingRenderer) Refresh() {
+	size := r.p.Size()
+	if size.Width <= 0 || size.Height <= 0 {
+		return
+	}
+	s, _ := canvas.BuildMoving(r.p.mw.input(), size.Width, size.Height)
+	r.objects = drawScene(s)
+	for _, o := range r.objects {
+		o.Refresh()
+	}
+}
+
+func (r *movingRenderer) Objects() []fyne.CanvasObject { return r.objects }
+
+func (r *movingRenderer) Destroy() {}
+
+// nearestStation is the index of the station nearest to x.
+func nearestStation(stations []float64, x float64) int {
+	s, _ := slices.BinarySearch(stations, x)
+	if s == len(stations) || (s > 0 && x-stations[s-1] < stations[s]-x) {
+		s--
+	}
+	return s
+}

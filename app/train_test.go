@@ -1,0 +1,91 @@
+package app
+
+import (
+	"math"
+	"path/filepath"
+	"slices"
+	"testing"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/test"
+
+	"stave/fem/moving"
+	"stave/storage"
+)
+
+func runwayWindow(t *testing.T) (*Window, *uiQueue, *movingWindow) {
+	t.Helper()
+	p, err := storage.Load(filepath.Join("..", "testdata", "moving", "runway.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	w, q := newTestWindow(t, p)
+	w.showMovingLoads()
+	mw := w.moving
+	if mw == nil {
+		t.Fatal("no moving-loads window")
+	}
+	q.waitFor(t, "the envelope", func() bool { return mw.env != nil })
+	return w, q, mw
+}
+
+// The window shows the file's first train at its worst position for the
+// largest bending moment, with its envelope, and the train follows a drag.
+func TestMovingWindowDragsTheTrain(t *testing.T) {
+	_, _, mw := runwayWindow(t)
+	hi, _ := mw.env.Worst(moving.EnvelopeQuantities[mw.quantityIndex])
+	if mw.current == nil {
+		t.Fatal("no field of the train where it stands")
+	}
+	s, _ := slices.BinarySearch(mw.env.Stations, hi.X)
+	if got := mw.current[s]; math.Abs(got-hi.Value) > 1e-9*math.Abs(hi.Value) {
+		t.Errorf("where the train stands (front at %g m) the moment at %g m is %g, want the envelope's largest %g", mw.at.Front, hi.X, got, hi.Value)
+	}
+	mw.win.Resize(fyne.NewSize(1280, 760))
+	size := mw.pic.Size()
+	before := mw.at
+	start := fyne.NewPos(size.Width/2, 60)
+	at := fyne.CurrentApp().Driver().AbsolutePositionForObject(mw.pic)
+	test.Drag(mw.win.Canvas(), at.Add(start), -200, 0)
+	mw.pic.DragEnd()
+	if mw.at.Front >= before.Front {
+		t.Errorf("dragging 200 pixels left moved the front from %g to %g m", before.Front, mw.at.Front)
+	}
+	if mw.env.Nearest(mw.at) != mw.at {
+		t.Errorf("the front at %g m is not one of the train's positions", mw.at.Front)
+	}
+}
+
+// Editing the train in the table changes the project (unsaved), and a train
+// that does not fit is refused with the reason.
+func TestMovingWindowEditsTheProject(t *testing.T) {
+	w, q, mw := runwayWindow(t)
+	mw.axleRows[1].spacing.SetText("2.5")
+	mw.apply()
+	if got := w.project.Trains[0].Axles[1].Spacing; got != 2.5 {
+		t.Errorf("the project's spacing is %g m after applying 2.5", got)
+	}
+	if !w.dirty() {
+		t.Error("the edited train leaves the project unchanged")
+	}
+	q.waitFor(t, "the new envelope", func() bool { return mw.env != nil && mw.env.Train.Axles[1].Spacing == 2.5 })
+	mw.axleRows[1].spacing.SetText("20")
+	mw.apply()
+	if w.project.Trains[0].Axles[1].Spacing != 2.5 || mw.status.Text == "" {
+		t.Errorf("a train longer than the member was applied; status %q", mw.status.Text)
+	}
+}
+
+// Choosing a train with more axles lays the table out for all its rows:
+// none hides under the button below it.
+func TestMovingWindowShowsEveryAxle(t *testing.T) {
+	_, q, mw := runwayWindow(t)
+	mw.choose(1)
+	q.waitFor(t, "the cart's envelope", func() bool { return mw.env != nil && mw.env.Train.Name == "maintenance cart" })
+	if len(mw.axleRows) != 3 {
+		t.Fatalf("%d rows for the cart's 3 axles", len(mw.axleRows))
+	}
+	if got, need := mw.axles.Size().Height, mw.axles.MinSize().Height; got < need-0.5 {
+		t.Errorf("the axle table is %g high, its 3 rows need %g", got, need)
+	}
+}

@@ -1,0 +1,99 @@
+package canvas
+
+import (
+	"bytes"
+	"image/png"
+	"strings"
+	"testing"
+
+	"stave/fem"
+	"stave/fem/moving"
+	"stave/fem/units"
+)
+
+// movingFixture is a two-span member with a three-axle train standing at
+// its worst position for the bending moment at 2.5 m (invented values).
+func movingFixture(t *testing.T) MovingInput {
+	t.Helper()
+	seg := fem.Segment{End: 10, Section: fem.Section{Area: 5e-3, SecondMoment: 8e-5, FibreDistance: 0.15}, Material: fem.Material{Elastic: 2e11}}
+	m := &fem.Model{Segments: []fem.Segment{seg}, Supports: []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 5, Kind: fem.Roller}, {X: 10, Kind: fem.Roller}}, Mesh: fem.MeshSettings{Elements: 50}}
+	p, err := fem.Prepare(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	in, err := moving.New(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	tr := &moving.Train{Name: "cart", Axles: []moving.Axle{{Load: 10e3}, {Load: 20e3, Spacing: 1}, {Load: 20e3, Spacing: 1}}, Step: 0.1}
+	env, err := in.Envelope(tr, p.Mesh(), nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	target := moving.Target{Quantity: fem.QBendingMoment, X: 2.5}
+	line, err := in.Line(target)
+	if err != nil {
+		t.Fatal(err)
+	}
+	hi, lo, err := in.Worst(tr, p.Mesh(), target)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return MovingInput{Model: m, Units: units.SI, Train: tr, At: hi.Placement, Envelope: env, Quantity: 3, Line: line, Worst: []moving.Extreme{hi, lo}}
+}
+
+// The picture draws each axle where the train stands, names the envelope's
+// quantity and the line's target, and marks the worst positions' values.
+func TestMovingPicture(t *testing.T) {
+	in := movingFixture(t)
+	s, bands := BuildMoving(in, 1200, 700)
+	var texts []string
+	for _, it := range s.Items {
+		if it.Kind == Text {
+			texts = append(texts, it.Text)
+		}
+	}
+	all := strings.Join(texts, "\n")
+	for _, want := range []string{"bending moment: envelope over", "influence line of the bending moment at x = 2.500 m",
+		"largest " + units.SI.Format(units.Moment, in.Worst[0].Value), "train “cart”"} {
+		if !strings.Contains(all, want) {
+			t.Errorf("no text %q among:\n%s", want, all)
+		}
+	}
+	v := NewView(1200, 700)
+	v.Fit(in.Model)
+	points, _ := in.Train.Loads(in.At)
+	for _, p := range points {
+		x := v.ToScreenX(p.X)
+		found := false
+		for _, it := range s.Items {
+			if it.Kind == Polyline && len(it.Points) == 2 && it.Stroke == loadColour && it.Points[0].X == x && it.Points[1].Y > it.Points[0].Y {
+				found = true
+			}
+		}
+		if !found {
+			t.Errorf("no arrow for the axle at %g m (screen x %g)", p.X, x)
+		}
+	}
+	if !(bands.EnvelopeTop < bands.EnvelopeBaseline && bands.EnvelopeBaseline < bands.EnvelopeBottom && bands.EnvelopeBottom < bands.InfluenceTop) {
+		t.Errorf("bands out of order: %+v", bands)
+	}
+	var buf bytes.Buffer
+	if err := WriteMoving(&buf, "png", in, 600, 400, 1); err != nil {
+		t.Fatal(err)
+	}
+	img, err := png.Decode(&buf)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if b := img.Bounds(); b.Dx() != 600 || b.Dy() != 400 {
+		t.Errorf("picture of %v, want 600 × 400", b)
+	}
+	buf.Reset()
+	if err := WriteMovingSheet(&buf, "pdf", MovingSheet{Picture: in, Header: []string{"quantity", "largest"}, Rows: [][]string{{"bending moment", "1 kN·m"}}}); err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.HasPrefix(buf.Bytes(), []byte("%PDF")) {
+		t.Error("the sheet is not a PDF")
+	}
+}

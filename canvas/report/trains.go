@@ -1,0 +1,262 @@
+package report
+
+import (
+	"fmt"
+	"math"
+
+	"stave/fem"
+	"stave/fem/moving"
+	"stave/storage"
+)
+
+// TrainResult is one train's worst positions for the target and, when
+// asked, its envelope.
+type TrainResult struct {
+	Train moving.Train
+	Label string
+	// Target says Largest and Smallest hold the target's extremes.
+	Target            bool
+	Largest, Smallest TrainExtreme
+	// Err is why the train could not be placed (it does not fit, say).
+	Err      error
+	Envelope *moving.Envelope
+	// Worst are the envelope's extremes of each quantity, checked by
+	// solving the train at its governing position by finite elements.
+	Worst []QuantityWorst
+}
+
+// TrainExtreme is an extreme of a quantity under a train: its value (SI),
+// where it is, the position that gives it and, when checked, the finite
+// element value with the train solved there.
+type TrainExtreme struct {
+	Value     float64  `json:"value"`
+	X         float64  `json:"x"`
+	Direction string   `json:"direction"`
+	Front     float64  `json:"front"`
+	FE        *float64 `json:"finite_elements,omitempty"`
+}
+
+// QuantityWorst are the extremes of one quantity over a train's positions.
+type QuantityWorst struct {
+	Quantity fem.Quantity `json:"quantity"`
+	Largest  TrainExtreme `json:"largest"`
+	Smallest TrainExtreme `json:"smallest"`
+}
+
+// trainResults places every train of p on the member of in: its extremes
+// of target when one is given, and its envelope when asked.
+func trainResults(p *storage.Project, in *moving.Influence, mesh fem.Mesh, target *moving.Target, envelope bool) ([]TrainResult, error) {
+	L := p.Model.Length()
+	var out []TrainResult
+	for i := range p.Trains {
+		t := &p.Trains[i]
+		tr := TrainResult{Train: *t, Label: t.Label(i)}
+		if err := t.Check(L, i); err != nil {
+			tr.Err = err
+			out = append(out, tr)
+			continue
+		}
+		if target != nil {
+			hi, lo, err := in.Worst(t, mesh, *target)
+			if err != nil {
+				return nil, err
+			}
+			tr.Target, tr.Largest, tr.Smallest = true, trainExtreme(hi), trainExtreme(lo)
+		}
+		if envelope {
+			var err error
+			if tr.Envelope, err = in.Envelope(t, mesh, nil); err != nil {
+				return nil, err
+			}
+			if tr.Worst, err = checkedWorst(&p.Model, t, tr.Envelope); err != nil {
+				return nil, err
+			}
+		}
+		out = append(out, tr)
+	}
+	return out, nil
+}
+
+func trainExtreme(e moving.Extreme) TrainExtreme {
+	return TrainExtreme{Value: e.Value, X: e.X, Direction: e.Placement.Direction.String(), Front: e.Placement.Front}
+}
+
+// checkedWorst are the envelope's extremes of each quantity, each checked
+// by solving the train at its governing position by finite elements and
+// reading the field there on either side. Where an axle stands on the
+// point the envelope holds the larger of the two limits with the axle just
+// either side of it (the shear force beside a wheel, say), which finite
+// elements, placing the load on the node, do not give at once: the train
+// is then also solved moved by a hair (nudge·L) each way, and the reading
+// nearest to the envelope's is kept, so a check that fails shows.
+func checkedWorst(m *fem.Model, t *moving.Train, e *moving.Envelope) ([]QuantityWorst, error) {
+	var out []QuantityWorst
+	for _, q := range moving.EnvelopeQuantities {
+		hi, lo := e.Worst(q)
+		w := QuantityWorst{Quantity: q, Largest: trainExtreme(hi), Smallest: trainExtreme(lo)}
+		for _, x := range []struct {
+			ex  moving.Extreme
+			out *TrainExtreme
+		}{{hi, &w.Largest}, {lo, &w.Smallest}} {
+			v, err := feReading(m, t, q, x.ex)
+			if err != nil {
+				return nil, err
+			}
+			x.out.FE = &v
+		}
+		out = append(out, w)
+	}
+	return out, nil
+}
+
+// nudge is how far, relative to the member, a train is moved to read the
+// limits beside an axle standing on a point.
+const nudge = 1e-6
+
+// feReading is quantity q at ex.X with the train at ex.Placement solved by
+// finite elements (see checkedWorst).
+func feReading(m *fem.Model, t *moving.Train, q fem.Quantity, ex moving.Extreme) (float64, error) {
+	L := m.Length()
+	places := []moving.Placement{ex.Placement}
+	points, _ := t.Loads(ex.Placement)
+	for _, p := range points {
+		if math.Abs(p.X-ex.X) <= 1e-9*L {
+			for _, d := range []float64{-nudge * L, nudge * L} {
+				places = append(places, moving.Placement{Direction: ex.Placement.Direction, Front: ex.Placement.Front + d})
+			}
+			break
+		}
+	}
+	best := math.NaN()
+	for _, pl := range places {
+		tm := t.Model(m, pl)
+		sol, err := fem.Solve(&tm)
+		if err != nil {
+			return 0, fmt.Errorf("the train at its governing position: %w", err)
+		}
+		for _, side := range []fem.Side{fem.Left, fem.Right} {
+			f := sol.At(ex.X, side)
+			if v := q.Of(&f); math.IsNaN(best) || math.Abs(v-ex.Value) < math.Abs(best-ex.Value) {
+				best = v
+			}
+		}
+	}
+	return best, nil
+}
+
+// TrainEnvelopes are the envelopes of every train of p, each extreme
+// checked by finite elements at its governing position: what the solve
+// command can add to its JSON as "trains" (TrainsJSON).
+func TrainEnvelopes(p *storage.Project) ([]TrainResult, error) {
+	member, in, err := influenceOf(p)
+	if err != nil {
+		return nil, err
+	}
+	return trainResults(p, in, member.Mesh(), nil, true)
+}
+
+// influenceOf prepares the member of p and sets up its influence lines.
+func influenceOf(p *storage.Project) (*fem.Member, *moving.Influence, error) {
+	member, err := fem.Prepare(&p.Model)
+	if err != nil {
+		return nil, nil, err
+	}
+	in, err := moving.New(member)
+	return member, in, err
+}
+
+// TrainJSON is one train's results as JSON, in SI units; positions are the
+// x of the train's front (its first axle) and the way it faces.
+type TrainJSON struct {
+	Train     string             `json:"train"`
+	Error     string             `json:"error,omitempty"`
+	Direction string             `json:"direction"`
+	From      float64            `json:"from"`
+	To        float64            `json:"to"`
+	Step      float64            `json:"step,omitempty"`
+	Positions int                `json:"positions,omitempty"`
+	Target    *TargetJSON        `json:"target,omitempty"`
+	Worst     []QuantityWorst    `json:"worst,omitempty"`
+	Reactions []ReactionJSON     `json:"reactions,omitempty"`
+	Envelope  *TrainEnvelopeJSON `json:"envelope,omitempty"`
+}
+
+// TargetJSON are a train's extremes of the influence command's target.
+type TargetJSON struct {
+	Largest  TrainExtreme `json:"largest"`
+	Smallest TrainExtreme `json:"smallest"`
+}
+
+// ReactionJSON is the range of one reaction over a train's positions;
+// Support counts from 1.
+type ReactionJSON struct {
+	Support  int          `json:"support"`
+	Motion   string       `json:"motion"`
+	Largest  TrainExtreme `json:"largest"`
+	Smallest TrainExtreme `json:"smallest"`
+}
+
+// TrainEnvelopeJSON is a train's envelope at every station: per quantity the
+// largest and smallest values and the front and direction of the train
+// that gives each.
+type TrainEnvelopeJSON struct {
+	Stations   []float64          `json:"stations"`
+	Quantities []EnvelopeQuantity `json:"quantities"`
+}
+
+// EnvelopeQuantity is the envelope of one quantity.
+type EnvelopeQuantity struct {
+	Quantity     fem.Quantity `json:"quantity"`
+	Max          []float64    `json:"max"`
+	MaxFront     []float64    `json:"max_front"`
+	MaxDirection []string     `json:"max_direction"`
+	Min          []float64    `json:"min"`
+	MinFront     []float64    `json:"min_front"`
+	MinDirection []string     `json:"min_direction"`
+}
+
+// TrainsJSON turns train results on model m into JSON, with the envelope
+// at every station when stations is set.
+func TrainsJSON(m *fem.Model, rs []TrainResult, stations bool) []TrainJSON {
+	out := make([]TrainJSON, 0, len(rs))
+	for _, r := range rs {
+		from, to := r.Train.Run(m.Length())
+		j := TrainJSON{Train: r.Label, Direction: r.Train.Direction.String(), From: from, To: to}
+		if r.Err != nil {
+			j.Error = r.Err.Error()
+			out = append(out, j)
+			continue
+		}
+		if r.Target {
+			j.Target = &TargetJSON{r.Largest, r.Smallest}
+		}
+		if e := r.Envelope; e != nil {
+			j.Step, j.Positions, j.Worst = e.Step, e.Positions, r.Worst
+			for _, re := range e.Reactions {
+				x := m.Supports[re.Support].X
+				j.Reactions = append(j.Reactions, ReactionJSON{Support: re.Support + 1, Motion: re.Motion.String(),
+					Largest:  TrainExtreme{Value: re.Max, X: x, Direction: re.MaxAt.Direction.String(), Front: re.MaxAt.Front},
+					Smallest: TrainExtreme{Value: re.Min, X: x, Direction: re.MinAt.Direction.String(), Front: re.MinAt.Front}})
+			}
+			if stations {
+				j.Envelope = envelopeJSON(e)
+			}
+		}
+		out = append(out, j)
+	}
+	return out
+}
+
+func envelopeJSON(e *moving.Envelope) *TrainEnvelopeJSON {
+	out := &TrainEnvelopeJSON{Stations: e.Stations}
+	for q, qty := range moving.EnvelopeQuantities {
+		eq := EnvelopeQuantity{Quantity: qty, Max: e.Max[q], Min: e.Min[q]}
+		for s := range e.Stations {
+			hi, lo := e.Placement(e.MaxAt[q][s]), e.Placement(e.MinAt[q][s])
+			eq.MaxFront, eq.MaxDirection = append(eq.MaxFront, hi.Front), append(eq.MaxDirection, hi.Direction.String())
+			eq.MinFront, eq.MinDirection = append(eq.MinFront, lo.Front), append(eq.MinDirection, lo.Direction.String())
+		}
+		out.Quantities = append(out.Quantities, eq)
+	}
+	return out
+}

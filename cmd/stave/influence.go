@@ -1,0 +1,147 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"path/filepath"
+	"strings"
+
+	"stave/canvas"
+	"stave/canvas/report"
+	"stave/fem"
+	"stave/fem/moving"
+	"stave/fem/units"
+	"stave/storage"
+)
+
+// influenceCommand prints the influence line of one quantity of a model,
+// from the exact solution and by finite elements, and what each of the
+// file's trains does to it: its worst positions and, with --envelope, the
+// envelope of every field over all its positions.
+func influenceCommand(args []string, stdout io.Writer) error {
+	fs := newFlagSet("influence")
+	quantity := fs.String("quantity", "", "the quantity: w, theta, V, M, sigma_bending, u, N, sigma_axial (or its name), or reaction")
+	at := fs.String("at", "", "where the quantity is read, along the member (display units, or with a unit: 2.5 m)")
+	side := fs.String("side", "right", "at a point where the quantity jumps, the side it is read on: left or right")
+	support := fs.Int("support", 0, "for a reaction: the support, counted from 1 along the file")
+	motion := fs.String("motion", "transverse", "for a reaction: transverse, rotation or axial")
+	points := fs.Int("points", 20, "the number of intervals the line is printed in")
+	envelope := fs.Bool("envelope", false, "also each train's envelope of every field over all its positions")
+	out := fs.String("out", "", "also draw the line, a train at its worst position and its envelope to NAME.png, NAME.svg or NAME.pdf")
+	sheet := fs.String("sheet", "", "also write a one-page calculation sheet of the train to NAME.pdf or NAME.png")
+	train := fs.Int("train", 1, "the train --out and --sheet show, counted from 1 along the file")
+	asJSON := fs.Bool("json", false, "print the result as JSON (SI units)")
+	system := fs.String("units", "", "unit system for the printed text: SI or US (default: the file's display units)")
+	path, err := parseOneFile(fs, args, stdout)
+	if err != nil {
+		return err
+	}
+	if *points < 1 || *points > 100000 {
+		return usageError{fmt.Sprintf("--points must be between 1 and 100000, got %d", *points)}
+	}
+	p, err := storage.Load(path)
+	if err != nil {
+		return modelError{err}
+	}
+	sys := report.UnitSystem(p.View.Units)
+	if *system != "" {
+		var ok bool
+		if sys, ok = units.ByName(*system); !ok {
+			return usageError{fmt.Sprintf("unknown unit system %q: use SI or US", *system)}
+		}
+	}
+	target, err := parseTarget(*quantity, *at, *side, *support, *motion, sys)
+	if err != nil {
+		return err
+	}
+	r, err := report.Influence(p, report.InfluenceRequest{Target: target, Points: *points, FiniteElements: true, Envelope: *envelope || *out != "" || *sheet != ""})
+	if err != nil {
+		return modelError{fmt.Errorf("%s: %w", path, err)}
+	}
+	if *out != "" {
+		if err := writePicture(r, *out, *train-1, sys); err != nil {
+			return err
+		}
+	}
+	if *sheet != "" {
+		if err := writeMovingSheet(p, r, *sheet, *train-1, sys); err != nil {
+			return err
+		}
+	}
+	if *asJSON {
+		return report.WriteInfluenceJSON(stdout, path, r)
+	}
+	report.WriteInfluenceText(stdout, path, r, sys)
+	return nil
+}
+
+// parseTarget reads the target of an influence line from the flags.
+func parseTarget(quantity, at, side string, support int, motion string, sys units.System) (moving.Target, error) {
+	var t moving.Target
+	switch strings.ToLower(quantity) {
+	case "":
+		return t, usageError{"influence needs --quantity: one of w, theta, V, M, sigma_bending, u, N, sigma_axial, or reaction with --support"}
+	case "reaction", "r":
+		if support < 1 {
+			return t, usageError{"a reaction needs --support N, the support counted from 1 along the file"}
+		}
+		d, ok := map[string]fem.Dof{"transverse": fem.Transverse, "rotation": fem.Rotation, "axial": fem.Axial}[motion]
+		if !ok {
+			return t, usageError{fmt.Sprintf("--motion %q: use transverse, rotation or axial", motion)}
+		}
+		return moving.Target{Reaction: true, Support: support - 1, Motion: d}, nil
+	}
+	q, ok := fem.ParseQuantity(quantity)
+	if !ok {
+		q, ok = fem.ParseQuantity(strings.ReplaceAll(quantity, "-", " "))
+	}
+	if !ok {
+		return t, usageError{fmt.Sprintf("--quantity %q is not a quantity: use w, theta, V, M, sigma_bending, u, N, sigma_axial, or reaction", quantity)}
+	}
+	if at == "" {
+		return t, usageError{fmt.Sprintf("the %s needs --at: where along the member to read it", q)}
+	}
+	x, err := sys.Parse(units.Position, at)
+	if err != nil {
+		return t, usageError{fmt.Sprintf("--at: %v", err)}
+	}
+	t = moving.Target{Quantity: q, X: x, Side: fem.Right}
+	switch side {
+	case "left":
+		t.Side = fem.Left
+	case "right":
+	default:
+		return t, usageError{fmt.Sprintf("--side %q: use left or right", side)}
+	}
+	return t, nil
+}
+
+// writePicture draws the moving-loads picture of r with train i to the
+// file name, its format from the extension.
+func writePicture(r *report.MovingLoads, name string, i int, sys units.System) error {
+	format := strings.TrimPrefix(strings.ToLower(filepath.Ext(name)), ".")
+	if format != "png" && format != "svg" && format != "pdf" {
+		return usageError{fmt.Sprintf("--out %q: name a .png, .svg or .pdf file", name)}
+	}
+	in, err := report.MovingPicture(r, i, sys)
+	if err != nil {
+		return modelError{err}
+	}
+	_, err = writeExport(name, func(w io.Writer) error { return canvas.WriteMoving(w, format, in, 1200, 760, 96.0/72) })
+	return err
+}
+
+// writeMovingSheet writes the one-page sheet of r with train i to the file
+// name, a PDF or PNG by its extension.
+func writeMovingSheet(p *storage.Project, r *report.MovingLoads, name string, i int, sys units.System) error {
+	format := strings.TrimPrefix(strings.ToLower(filepath.Ext(name)), ".")
+	if format != "png" && format != "pdf" {
+		return usageError{fmt.Sprintf("--sheet %q: name a .pdf or .png file", name)}
+	}
+	in, err := report.MovingSheet(p, r, i, sys)
+	if err != nil {
+		return modelError{err}
+	}
+	_, err = writeExport(name, func(w io.Writer) error { return canvas.WriteMovingSheet(w, format, in) })
+	return err
+}

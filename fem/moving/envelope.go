@@ -1,0 +1,590 @@
+package moving
+
+import (
+	"errors"
+	"math"
+	"slices"
+
+	"stave/fem"
+)
+
+// maxReaders is the most lines one scan takes.
+const maxReaders = len(envelopeRows)
+
+// extreme is the largest (or smallest) effect found so far and the number
+// of the position that gives it, −1 before any.
+type extreme struct {
+	value float64
+	at    int32
+}
+
+func (e *extreme) most(v float64, at int32) {
+	if e.at < 0 || v > e.value {
+		e.value, e.at = v, at
+	}
+}
+
+func (e *extreme) least(v float64, at int32) {
+	if e.at < 0 || v < e.value {
+		e.value, e.at = v, at
+	}
+}
+
+// scan folds into hi and lo (one per line of ls) the largest and smallest
+// effect of the run over all its positions. On each stretch of positions
+// between the breaks (where an axle or an end of the uniform load passes a
+// bound of ls) every line's effect is one polynomial F of the front's
+// position, of degree 3 (4 with a uniform load): its extremes over the
+// positions are at the first and last position of the stretch and at the
+// positions next to the roots of F′. Where the lines may jump (at ls.at), a
+// position with an axle standing on the point is also evaluated with the
+// axle on each of the sides given (on the line's sides of its jump).
+//
+// Every polynomial is written in ŝ = s/ℓ, the front's position over the
+// member's length, so that each axle's term on each piece of ls is shifted
+// once per scan, not once per stretch of positions; with ŝ in [0, 1] that
+// costs at most a digit of the sixteen.
+func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
+	n, ell := ls.n, ls.length
+	r.terms(ls)
+	br := r.mergeBreaks(ls)
+	// place[a] is the piece of ls under axle a (then under the ends of the
+	// uniform load), advanced as the stretches of positions go by.
+	places := slices.Grow(r.places[:0], len(r.axles)+2)[:len(r.axles)+2]
+	clear(places)
+	r.places = places
+	ends := [2]float64{r.u0, r.u1}
+	var f [maxReaders]poly
+	for i := 1; i < len(br); i++ {
+		a, b := br[i-1], br[i]
+		if b < a || (b == a && r.n > 1) {
+			continue
+		}
+		kLo := max(0, int(math.Ceil((a-r.s0)/r.step-1e-9)))
+		kHi := min(r.n-1, int(math.Floor((b-r.s0)/r.step+1e-9)))
+		if r.n == 1 {
+			kLo, kHi = 0, 0
+		}
+		if kLo > kHi {
+			continue
+		}
+		mid := 0.5 * (a + b)
+		for i := range n {
+			f[i] = poly{}
+		}
+		for k, ax := range r.axles {
+			p := ls.advance(&places[k], mid+ax.offset)
+			g := r.axleTerms[(k*ls.pieces()+p)*n:]
+			for i := range n {
+				f[i].add(ax.load, &g[i])
+			}
+		}
+		if r.uniform {
+			for e, off := range ends {
+				p := ls.advance(&places[len(r.axles)+e], mid+off)
+				g := r.uniformTerms[(e*ls.pieces()+p)*n:]
+				sign := float64(2*e - 1) // the integral to the far end less that to the near one
+				for i := range n {
+					f[i].add(sign*r.q, &g[i])
+				}
+			}
+		}
+		for i := range n {
+			cands := append(r.candidates[:0], kLo, kHi)
+			var roots [3]float64
+			for _, u := range roots[:rootsIn(f[i].derivative(), a/ell, b/ell, &roots)] {
+				k := int(math.Floor((u*ell - r.s0) / r.step))
+				cands = append(cands, min(max(k, kLo), kHi), min(max(k+1, kLo), kHi))
+			}
+			r.candidates = cands
+			for _, k := range cands {
+				v := f[i].at(r.front(k) / ell)
+				hi[i].most(v, r.first+int32(k))
+				lo[i].least(v, r.first+int32(k))
+			}
+		}
+	}
+	if len(jumps) > 0 {
+		r.scanJumps(ls, hi, lo, jumps)
+	}
+}
+
+// terms writes, for every axle and piece of ls, each line's value per
+// newton of that axle as a polynomial in ŝ (the axle at ŝ·ℓ + offset
+// standing on the piece), and for each end of the uniform load the
+// integral of each line from 0 to it.
+func (r *run) terms(ls *lines) {
+	n, np := ls.n, ls.pieces()
+	r.axleTerms = slices.Grow(r.axleTerms[:0], len(r.axles)*np*n)[:len(r.axles)*np*n]
+	for k, ax := range r.axles {
+		for p := range np {
+			t := (ax.offset - ls.bounds[p]) / ls.length
+			for i := range n {
+				r.axleTerms[(k*np+p)*n+i] = ls.coef[p*n+i].shift(t)
+			}
+		}
+	}
+	if !r.uniform {
+		return
+	}
+	r.uniformTerms = slices.Grow(r.uniformTerms[:0], 2*np*n)[:2*np*n]
+	for e, off := range [2]float64{r.u0, r.u1} {
+		for p := range np {
+			t := (off - ls.bounds[p]) / ls.length
+			for i := range n {
+				phi := ls.coef[p*n+i].antiderivative()
+				for c := range phi {
+					phi[c] *= ls.length
+				}
+				phi[0] += ls.integ[p*n+i]
+				r.uniformTerms[(e*np+p)*n+i] = phi.shift(t)
+			}
+		}
+	}
+}
+
+// setKeys keeps the fronts where an axle or an end of the uniform load
+// passes one of the member's key points, within the run's positions and
+// in order, for every scan to merge its own breaks into.
+func (r *run) setKeys(keys []float64) {
+	r.keys = keys
+	r.offsets = r.offsets[:0]
+	for _, ax := range r.axles {
+		r.offsets = append(r.offsets, ax.offset)
+	}
+	if r.uniform {
+		r.offsets = append(r.offsets, r.u0, r.u1)
+	}
+	r.fixed = append(r.fixed[:0], r.s0)
+	for _, b := range keys {
+		r.fixed = r.within(r.fixed, b)
+	}
+	r.fixed = append(r.fixed, r.front(r.n-1))
+	slices.Sort(r.fixed)
+	r.fixed = slices.Compact(r.fixed)
+	if r.n == 1 {
+		// One position: first and last are one, and the one stretch of
+		// positions runs from it to itself.
+		r.fixed = []float64{r.s0, r.s0}
+	}
+}
+
+// within appends the fronts that put an axle or an end of the uniform load
+// on x strictly inside the run's positions.
+func (r *run) within(out []float64, x float64) []float64 {
+	last := r.front(r.n - 1)
+	for _, off := range r.offsets {
+		if s := x - off; s > r.s0 && s < last {
+			out = append(out, s)
+		}
+	}
+	return out
+}
+
+// mergeBreaks returns the run's breaks at the key points merged with those
+// at the point ls reads, in order.
+func (r *run) mergeBreaks(ls *lines) []float64 {
+	moving := r.moving[:0]
+	if _, key := slices.BinarySearch(r.keys, ls.at); !key {
+		moving = r.within(moving, ls.at)
+		slices.Sort(moving)
+	}
+	r.moving = moving
+	br := r.breaks[:0]
+	i, j := 0, 0
+	for i < len(r.fixed) || j < len(moving) {
+		if j == len(moving) || (i < len(r.fixed) && r.fixed[i] <= moving[j]) {
+			br = append(br, r.fixed[i])
+			i++
+		} else {
+			br = append(br, moving[j])
+			j++
+		}
+	}
+	r.breaks = br
+	return br
+}
+
+// advance moves *p on to the piece of ls holding sigma, which never lies
+// before it (the stretches of positions come in order).
+func (ls *lines) advance(p *int, sigma float64) int {
+	for *p < ls.pieces()-1 && ls.bounds[*p+1] <= sigma {
+		*p++
+	}
+	return *p
+}
+
+// scanJumps evaluates the positions that put an axle on ls.at, where the
+// lines jump, with that axle on the given sides of the point.
+func (r *run) scanJumps(ls *lines, hi, lo []extreme, sides []fem.Side) {
+	for a, ax := range r.axles {
+		s := ls.at - ax.offset
+		k := int(math.Round((s - r.s0) / r.step))
+		if r.n == 1 {
+			k = 0
+		}
+		if k < 0 || k >= r.n || math.Abs(r.front(k)-s) > r.tolerance {
+			continue
+		}
+		front := r.front(k)
+		for i := range ls.n {
+			base := 0.0
+			for b, other := range r.axles {
+				if b != a {
+					base += other.load * ls.value(i, front+other.offset, fem.Right)
+				}
+			}
+			if r.uniform {
+				base += r.q * (ls.integral(i, front+r.u1) - ls.integral(i, front+r.u0))
+			}
+			for _, side := range sides {
+				v := base + ax.load*ls.value(i, ls.at, side)
+				hi[i].most(v, r.first+int32(k))
+				lo[i].least(v, r.first+int32(k))
+			}
+		}
+	}
+}
+
+// EnvelopeQuantities are the quantities a train's envelope holds: those a
+// load across the member moves (a train moves no axial force).
+var EnvelopeQuantities = []fem.Quantity{fem.QDeflection, fem.QRotation, fem.QShearForce, fem.QBendingMoment, fem.QBendingStress}
+
+// The rows the envelope reads at a station, in the order of the first four
+// EnvelopeQuantities; the bending stress is the moment's times c/I.
+var envelopeRows = [4]int{compW, compTheta, compV, compM}
+
+// Envelope is the largest and the smallest effect of a train at every
+// station over all its positions, with the position that governs each.
+type Envelope struct {
+	Train Train
+	// Stations are the points the envelope is taken at, m, in order.
+	Stations []float64
+	// Max and Min hold, per quantity of EnvelopeQuantities and station,
+	// the largest and smallest value in SI units; MaxAt and MinAt the
+	// number of the position giving it (Placement).
+	Max, Min     [][]float64
+	MaxAt, MinAt [][]int32
+	// Reactions are the extremes of every reaction across the member
+	// (transverse and rotation) of every support.
+	Reactions []ReactionEnvelope
+	// Step is the distance between positions, m, and Positions their
+	// number in each direction the train moves.
+	Step      float64
+	Positions int
+	runs      []run
+}
+
+// ReactionEnvelope is the range of one reaction over a train's positions.
+type ReactionEnvelope struct {
+	Support      int
+	Motion       fem.Dof
+	Max, Min     float64 // N or N·m
+	MaxAt, MinAt Placement
+}
+
+// Placement is position number i of the envelope's train.
+func (e *Envelope) Placement(i int32) Placement {
+	for _, r := range e.runs {
+		if i >= r.first && int(i-r.first) < r.n {
+			return Placement{r.direction, r.front(int(i - r.first))}
+		}
+	}
+	return Placement{}
+}
+
+// Nearest is the envelope's position nearest to p, facing p's way when the
+// train moves that way (else the first way it moves).
+func (e *Envelope) Nearest(p Placement) Placement {
+	r := e.runs[0]
+	for _, o := range e.runs {
+		if o.direction == p.Direction {
+			r = o
+		}
+	}
+	k := 0
+	if r.n > 1 {
+		k = min(max(int(math.Round((p.Front-r.s0)/r.step)), 0), r.n-1)
+	}
+	return Placement{r.direction, r.front(k)}
+}
+
+// Combine is the envelope of a combination that takes the train with a
+// factor on top of fixed loads: base[q][s] is quantity q of
+// EnvelopeQuantities at station s under the fixed loads, already factored
+// (nil for none). A positive factor takes the train's largest value to the
+// combination's largest, a negative one its smallest, with the positions
+// that govern them. The reactions combine likewise with baseReactions (one
+// per entry of Reactions; nil for none). The load-case envelope merges a
+// train this way.
+func (e *Envelope) Combine(factor float64, base [][]float64, baseReactions []float64) *Envelope {
+	out := *e
+	nq := len(EnvelopeQuantities)
+	out.Max, out.Min = make([][]float64, nq), make([][]float64, nq)
+	out.MaxAt, out.MinAt = make([][]int32, nq), make([][]int32, nq)
+	for q := range nq {
+		hi, lo, hiAt, loAt := e.Max[q], e.Min[q], e.MaxAt[q], e.MinAt[q]
+		if factor < 0 {
+			hi, lo, hiAt, loAt = lo, hi, loAt, hiAt
+		}
+		out.Max[q], out.Min[q] = make([]float64, len(e.Stations)), make([]float64, len(e.Stations))
+		out.MaxAt[q], out.MinAt[q] = slices.Clone(hiAt), slices.Clone(loAt)
+		for s := range e.Stations {
+			b := 0.0
+			if base != nil {
+				b = base[q][s]
+			}
+			out.Max[q][s], out.Min[q][s] = b+factor*hi[s], b+factor*lo[s]
+		}
+	}
+	out.Reactions = slices.Clone(e.Reactions)
+	for i := range out.Reactions {
+		r := &out.Reactions[i]
+		b := 0.0
+		if baseReactions != nil {
+			b = baseReactions[i]
+		}
+		if factor < 0 {
+			r.Max, r.Min, r.MaxAt, r.MinAt = r.Min, r.Max, r.MinAt, r.MaxAt
+		}
+		r.Max, r.Min = b+factor*r.Max, b+factor*r.Min
+	}
+	return &out
+}
+
+// AllPositions is the number of positions in every direction together.
+func (e *Envelope) AllPositions() int {
+	n := 0
+	for _, r := range e.runs {
+		n += r.n
+	}
+	return n
+}
+
+// Extreme is one extreme of a quantity: its value, where it is and the
+// train's position that gives it.
+type Extreme struct {
+	Value, X  float64
+	Placement Placement
+}
+
+// Worst is the largest and the smallest value of quantity q (one of
+// EnvelopeQuantities) anywhere along the member over every position.
+func (e *Envelope) Worst(q fem.Quantity) (hi, lo Extreme) {
+	k := slices.Index(EnvelopeQuantities, q)
+	if k < 0 {
+		return Extreme{}, Extreme{}
+	}
+	best, least := 0, 0
+	for s := range e.Stations {
+		if e.Max[k][s] > e.Max[k][best] {
+			best = s
+		}
+		if e.Min[k][s] < e.Min[k][least] {
+			least = s
+		}
+	}
+	return Extreme{e.Max[k][best], e.Stations[best], e.Placement(e.MaxAt[k][best])},
+		Extreme{e.Min[k][least], e.Stations[least], e.Placement(e.MinAt[k][least])}
+}
+
+// minStations is the number of intervals below which the default stations
+// divide the mesh's elements further, so that a coarse mesh still gives a
+// smooth envelope.
+const minStations = 400
+
+// Stations are the default stations of an envelope: every node of mesh,
+// with points between them so that no gap is longer than L/minStations.
+func Stations(mesh fem.Mesh) []float64 {
+	if len(mesh.X) == 0 {
+		return nil
+	}
+	L := mesh.X[len(mesh.X)-1] - mesh.X[0]
+	out := []float64{mesh.X[0]}
+	for i := 1; i < len(mesh.X); i++ {
+		a, b := mesh.X[i-1], mesh.X[i]
+		k := max(1, int(math.Ceil((b-a)/L*minStations*(1-1e-12))))
+		for j := 1; j < k; j++ {
+			out = append(out, a+(b-a)*float64(j)/float64(k))
+		}
+		out = append(out, b)
+	}
+	return out
+}
+
+// bothSides are the sides of a jump an envelope takes: the larger of the two.
+var bothSides = []fem.Side{fem.Left, fem.Right}
+
+// parallelStations is the number of stations from which Envelope works on
+// two goroutines.
+const parallelStations = 2048
+
+// Envelope finds train t's envelope at the stations (nil for Stations of
+// mesh), with the step t gives or one derived from mesh. Its cost grows
+// with the stations, the axles and the key points, not with the number of
+// positions (see the package comment).
+func (in *Influence) Envelope(t *Train, mesh fem.Mesh, stations []float64) (*Envelope, error) {
+	s := in.bending
+	if s == nil {
+		return nil, in.bendingErr
+	}
+	runs, err := t.runs(in.model.Length(), mesh)
+	if err != nil {
+		return nil, err
+	}
+	if stations == nil {
+		stations = Stations(mesh)
+	}
+	e := &Envelope{Train: *t, Stations: stations, runs: runs, Step: runs[0].step, Positions: runs[0].n}
+	nq := len(EnvelopeQuantities)
+	e.Max, e.Min = make([][]float64, nq), make([][]float64, nq)
+	e.MaxAt, e.MinAt = make([][]int32, nq), make([][]int32, nq)
+	for q := range nq {
+		e.Max[q], e.Min[q] = make([]float64, len(stations)), make([]float64, len(stations))
+		e.MaxAt[q], e.MinAt[q] = make([]int32, len(stations)), make([]int32, len(stations))
+	}
+	n := len(stations)
+	if n < parallelStations {
+		in.envelopeStations(s, e, 0, n)
+	} else {
+		done := make(chan struct{})
+		go func() {
+			in.envelopeStations(s, e, n/2, n)
+			close(done)
+		}()
+		in.envelopeStations(s, e, 0, n/2)
+		<-done
+	}
+	in.envelopeReactions(s, e)
+	return e, nil
+}
+
+// workRuns are copies of runs with scratch of their own, for one goroutine,
+// ready to scan the member of s.
+func workRuns(runs []run, s *sweeps) []run {
+	out := make([]run, len(runs))
+	for i, r := range runs {
+		out[i] = run{direction: r.direction, s0: r.s0, step: r.step, n: r.n, first: r.first,
+			axles: r.axles, uniform: r.uniform, q: r.q, u0: r.u0, u1: r.u1, tolerance: r.tolerance}
+		out[i].setKeys(s.keys)
+	}
+	return out
+}
+
+// envelopeStations fills stations from to to of e.
+func (in *Influence) envelopeStations(s *sweeps, e *Envelope, from, to int) {
+	runs := workRuns(e.runs, s)
+	var ls lines
+	var rs [4]reader
+	var hi, lo [4]extreme
+	K := len(s.keys) - 1
+	m := in.model
+	for st := from; st < to; st++ {
+		x := e.Stations[st]
+		sides := []fem.Side{fem.Right}
+		if k := s.keyIndex(x); math.Abs(x-s.keys[k]) <= keyTolerance*s.length {
+			x = s.keys[k]
+			switch k {
+			case 0:
+			case K:
+				sides = []fem.Side{fem.Left}
+			default:
+				sides = []fem.Side{fem.Left, fem.Right}
+			}
+		}
+		first := true
+		for _, side := range sides {
+			i, tau := s.locate(x, side)
+			for q, row := range envelopeRows {
+				_, scale, _ := s.quantityRow(EnvelopeQuantities[q])
+				rs[q] = s.stationReader(i, tau, row, scale)
+				rs[q].x = x
+				hi[q], lo[q] = extreme{at: -1}, extreme{at: -1}
+			}
+			ls.fill(s, rs[:])
+			for r := range runs {
+				runs[r].scan(&ls, hi[:], lo[:], bothSides)
+			}
+			seg := m.Segments[segmentAt(m, x, side)].Section
+			stress := seg.FibreDistance / seg.SecondMoment
+			for q := range EnvelopeQuantities {
+				h, l := hi[min(q, 3)], lo[min(q, 3)]
+				if q == 4 {
+					h.value, l.value = h.value*stress, l.value*stress
+				}
+				if first || h.value > e.Max[q][st] {
+					e.Max[q][st], e.MaxAt[q][st] = h.value, h.at
+				}
+				if first || l.value < e.Min[q][st] {
+					e.Min[q][st], e.MinAt[q][st] = l.value, l.at
+				}
+			}
+			first = false
+		}
+	}
+}
+
+// Worst is the largest and the smallest value of target tg under train t
+// over all its positions, with the positions giving them, for the step t
+// gives or one derived from mesh. A quantity at a point where it jumps is
+// read on tg.Side; a bending target only (a train loads across).
+func (in *Influence) Worst(t *Train, mesh fem.Mesh, tg Target) (hi, lo Extreme, err error) {
+	if !tg.Bending() {
+		return hi, lo, errors.New("a train loads the member across: ask for a bending quantity or a transverse or rotation reaction")
+	}
+	s, err := in.sweepsFor(tg)
+	if err != nil {
+		return hi, lo, err
+	}
+	r, err := in.reader(s, tg)
+	if err != nil {
+		return hi, lo, err
+	}
+	all, err := t.runs(in.model.Length(), mesh)
+	if err != nil {
+		return hi, lo, err
+	}
+	runs := workRuns(all, s)
+	var ls lines
+	ls.fill(s, []reader{r})
+	h, l := []extreme{{at: -1}}, []extreme{{at: -1}}
+	// Read just left of the point, an axle standing on it is after it:
+	// the line's piece on the right of its jump; and the other way round.
+	var jumps []fem.Side
+	if !tg.Reaction {
+		jumps = []fem.Side{-tg.Side}
+		if tg.Side == 0 {
+			jumps = []fem.Side{fem.Left}
+		}
+	}
+	for i := range runs {
+		runs[i].scan(&ls, h, l, jumps)
+	}
+	e := Envelope{runs: runs}
+	x := tg.X
+	if tg.Reaction {
+		x = in.model.Supports[tg.Support].X
+	}
+	return Extreme{h[0].value, x, e.Placement(h[0].at)}, Extreme{l[0].value, x, e.Placement(l[0].at)}, nil
+}
+
+// envelopeReactions finds the range of every reaction across the member.
+func (in *Influence) envelopeReactions(s *sweeps, e *Envelope) {
+	runs := workRuns(e.runs, s)
+	var ls lines
+	for i, sup := range in.model.Supports {
+		for _, d := range []fem.Dof{fem.Transverse, fem.Rotation} {
+			if !sup.Holds(d) {
+				continue
+			}
+			rs := []reader{s.reactionReader(s.keyIndex(sup.X), d)}
+			ls.fill(s, rs)
+			hi, lo := []extreme{{at: -1}}, []extreme{{at: -1}}
+			for r := range runs {
+				runs[r].scan(&ls, hi, lo, nil)
+			}
+			e.Reactions = append(e.Reactions, ReactionEnvelope{Support: i, Motion: d,
+				Max: hi[0].value, Min: lo[0].value, MaxAt: e.Placement(hi[0].at), MinAt: e.Placement(lo[0].at)})
+		}
+	}
+}

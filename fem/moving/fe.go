@@ -1,0 +1,64 @@
+package moving
+
+import (
+	"fmt"
+
+	"stave/fem"
+)
+
+// FELine is the finite element influence line of t at the given load
+// positions (m): the member p is factorized once on mesh (Member.Structure)
+// and solved once per position under the unit load alone, which stands on
+// the fine mesh node nearest its position, as Stave places every point
+// load. It returns the value of t per newton for each position and the x of
+// the node the load stood on. Each solve costs time linear in the number of
+// elements.
+func FELine(p *fem.Member, mesh fem.Mesh, t Target, positions []float64) (values, at []float64, err error) {
+	if t.Bending() && !p.Bending() {
+		return nil, nil, fmt.Errorf("the member is solved as a bar alone (nothing holds or loads it across): it has no finite element influence line of the %s", t.Quantity)
+	}
+	st, err := p.Structure(mesh)
+	if err != nil {
+		return nil, nil, err
+	}
+	unit := Unloaded(p.Model())
+	keys := st.KeyPoints()
+	values, at = make([]float64, len(positions)), make([]float64, len(positions))
+	for i, s := range positions {
+		x := mesh.X[mesh.NodeNearest(s)]
+		load := fem.PointLoad{X: x, Transverse: -1}
+		if !t.Bending() {
+			load = fem.PointLoad{X: x, Axial: 1}
+		}
+		unit.PointLoads = []fem.PointLoad{load}
+		loads := fem.GatherLoads(&unit, keys)
+		sol, err := st.Solve(&loads)
+		if err != nil {
+			return nil, nil, err
+		}
+		values[i], at[i] = read(sol, t), x
+	}
+	return values, at, nil
+}
+
+// read is t's value in the finite element solution sol.
+func read(sol *fem.Solution, t Target) float64 {
+	if t.Reaction {
+		return sol.Reactions[t.Support].Force[t.Motion]
+	}
+	f := sol.At(t.X, t.Side)
+	return t.Quantity.Of(&f)
+}
+
+// Unloaded is a copy of m with its member, supports and hinges and none of
+// its loads: no point or distributed loads, cases, combinations,
+// self-weight, temperature change or settlements.
+func Unloaded(m *fem.Model) fem.Model {
+	c := m.Clone()
+	c.PointLoads, c.DistributedLoad, c.Cases, c.Combinations = nil, nil, nil, nil
+	c.Gravity, c.TemperatureChange = [2]float64{}, 0
+	for i := range c.Supports {
+		c.Supports[i].Settlement = [3]float64{}
+	}
+	return c
+}

@@ -1,0 +1,155 @@
+package moving
+
+import (
+	"math"
+	"testing"
+
+	"stave/fem"
+)
+
+// beam is a prismatic member of length L with the given supports: steel
+// (E = 200 GPa), A = 5e-3 m², I = 8e-5 m⁴, c = 0.15 m (invented values
+// of a plain section; the closed forms below do not depend on them except
+// through EI).
+func beam(L float64, sups ...fem.Support) *fem.Model {
+	return &fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: L,
+			Section:  fem.Section{Area: 5e-3, SecondMoment: 8e-5, FibreDistance: 0.15},
+			Material: fem.Material{Elastic: 200e9}}},
+		Supports: sups,
+		Mesh:     fem.MeshSettings{Elements: 40},
+	}
+}
+
+func influence(t *testing.T, m *fem.Model) *Influence {
+	t.Helper()
+	_, in := prepared(t, m)
+	return in
+}
+
+// prepared is m's member and its influence lines.
+func prepared(t *testing.T, m *fem.Model) (*fem.Member, *Influence) {
+	t.Helper()
+	p, err := fem.Prepare(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	in, err := New(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return p, in
+}
+
+func line(t *testing.T, in *Influence, tg Target) *Line {
+	t.Helper()
+	l, err := in.Line(tg)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return l
+}
+
+func near(got, want, tol float64) bool {
+	return math.Abs(got-want) <= tol*max(1, math.Abs(want))
+}
+
+// Simply supported beam, span L, unit load down at s. Source: influence
+// lines of a simple beam (statics; e.g. Hibbeler, Structural Analysis,
+// ch. 6), from memory:
+//
+//	R_A(s) = 1 − s/L
+//	M(x = L/2; s) = s/2 for s ≤ L/2, (L − s)/2 beyond: a triangle, peak L/4
+//	V(x; s) = −s/L for s < x, 1 − s/L for s > x
+func TestSimpleBeamInfluenceLines(t *testing.T) {
+	const L = 8.0
+	in := influence(t, beam(L, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: L, Kind: fem.Roller}))
+	mid := line(t, in, Target{Quantity: fem.QBendingMoment, X: L / 2})
+	ra := line(t, in, Target{Reaction: true, Support: 0, Motion: fem.Transverse})
+	v3 := line(t, in, Target{Quantity: fem.QShearForce, X: 3})
+	for _, s := range []float64{0, 0.5, 2, 3.999, 4, 4.5, 7, 8} {
+		wantM := s / 2
+		if s > L/2 {
+			wantM = (L - s) / 2
+		}
+		if got := mid.At(s, fem.Right); !near(got, wantM, 1e-12) {
+			t.Errorf("M(L/2) for a load at s = %g: got %.15g, want %g", s, got, wantM)
+		}
+		if got, want := ra.At(s, fem.Right), 1-s/L; !near(got, want, 1e-12) {
+			t.Errorf("R_A for a load at s = %g: got %.15g, want %g", s, got, want)
+		}
+		wantV := 1 - s/L
+		if s < 3 {
+			wantV = -s / L
+		}
+		if got := v3.At(s, fem.Right); !near(got, wantV, 1e-12) {
+			t.Errorf("V(3) for a load at s = %g: got %.15g, want %g", s, got, wantV)
+		}
+	}
+	lo, hi := mid.Extremes()
+	if !near(hi.Value, L/4, 1e-12) || !near(hi.S, L/2, 1e-9) || !near(lo.Value, 0, 1e-12) {
+		t.Errorf("extremes of M(L/2): got %+v and %+v, want the peak L/4 = %g at s = %g and 0", lo, hi, L/4, L/2)
+	}
+}
+
+// Two equal continuous spans L (supports at 0, L, 2L), unit load down at a.
+// By Müller-Breslau the middle reaction's line is the deflected shape of the
+// simple beam of span 2L under a load at its middle, scaled to 1 there. With
+// the deflection of a simple beam of span ℓ under a load at a ≤ ℓ/2, read at
+// its middle, P·a·(3ℓ² − 4a²)/(48·EI) (beam deflection tables, Roark's
+// Formulas / AISC beam diagrams, from memory), that gives for a ≤ L
+//
+//	R_B(a) = a·(3L² − a²)/(2L³), symmetric about B,
+//
+// and statics (moments about C) R_A = (2L − a − R_B·L)/(2L).
+func TestTwoSpanReactionInfluenceLines(t *testing.T) {
+	const L = 5.0
+	in := influence(t, beam(2*L, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: L, Kind: fem.Roller}, fem.Support{X: 2 * L, Kind: fem.Roller}))
+	rb := line(t, in, Target{Reaction: true, Support: 1, Motion: fem.Transverse})
+	ra := line(t, in, Target{Reaction: true, Support: 0, Motion: fem.Transverse})
+	for _, a := range []float64{0, 1, 2.5, 4, 5, 6, 8.5, 10} {
+		u := min(a, 2*L-a)
+		wantB := u * (3*L*L - u*u) / (2 * L * L * L)
+		wantA := (2*L - a - wantB*L) / (2 * L)
+		if got := rb.At(a, fem.Right); !near(got, wantB, 1e-12) {
+			t.Errorf("R_B for a load at %g: got %.15g, want %.15g", a, got, wantB)
+		}
+		if got := ra.At(a, fem.Right); !near(got, wantA, 1e-12) {
+			t.Errorf("R_A for a load at %g: got %.15g, want %.15g", a, got, wantA)
+		}
+	}
+}
+
+// A bar fixed at both ends, unit load along +x at s: the part before s
+// carries N = (L − s)/L in tension, the part after N = −s/L (statics with
+// the compatibility of the two parts' elongations, from memory).
+func TestFixedBarAxialForceInfluenceLine(t *testing.T) {
+	const L = 6.0
+	in := influence(t, beam(L, fem.Support{X: 0, Kind: fem.Fixed}, fem.Support{X: L, Kind: fem.Fixed}))
+	n := line(t, in, Target{Quantity: fem.QAxialForce, X: 2})
+	for _, s := range []float64{0, 1, 2.5, 4, 6} {
+		want := -s / L
+		if s > 2 {
+			want = (L - s) / L
+		}
+		if got := n.At(s, fem.Right); !near(got, want, 1e-12) {
+			t.Errorf("N(2) for a load at %g: got %.15g, want %g", s, got, want)
+		}
+	}
+}
+
+// A line's pieces, each in its own ξ, give the line's values.
+func TestPiecesGiveTheLine(t *testing.T) {
+	in := influence(t, knotty())
+	l := line(t, in, Target{Quantity: fem.QBendingMoment, X: 5.3})
+	for _, p := range l.Pieces() {
+		for _, xi := range []float64{0.1, 0.5, 0.9} {
+			s := p.From + xi*(p.To-p.From)
+			c := p.Coefficients
+			got := c[0] + xi*(c[1]+xi*(c[2]+xi*c[3]))
+			if want := l.At(s, fem.Right); !near(got, want, 1e-12) {
+				t.Errorf("piece %g–%g at s = %g: %.15g, the line %.15g", p.From, p.To, s, got, want)
+			}
+		}
+	}
+}

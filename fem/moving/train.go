@@ -1,0 +1,362 @@
+package moving
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"slices"
+	"strings"
+
+	"stave/fem"
+)
+
+// Direction says which way a train moves.
+type Direction int
+
+// Directions. A train that moves both ways is placed facing either way:
+// the effects of an unsymmetric train differ.
+const (
+	BothWays Direction = iota
+	Forward            // towards +x: the first axle leads, the rest follow at smaller x
+	Backward           // towards −x: the first axle leads, the rest follow at larger x
+)
+
+var directionNames = [...]string{"both", "forward", "backward"}
+
+// String names the direction as files and messages do.
+func (d Direction) String() string {
+	if d < 0 || int(d) >= len(directionNames) {
+		return "unknown"
+	}
+	return directionNames[d]
+}
+
+// ParseDirection is the inverse of Direction.String.
+func ParseDirection(s string) (Direction, bool) {
+	i := slices.Index(directionNames[:], s)
+	return Direction(max(i, 0)), i >= 0
+}
+
+// Axle is one axle or wheel load of a train.
+type Axle struct {
+	Load float64 // N, acting down (a weight): above zero
+	// Spacing is the distance from the axle before, m, above zero; the
+	// first axle has none.
+	Spacing float64
+}
+
+// UniformLoad is a train's uniform load, moving with it.
+type UniformLoad struct {
+	Load   float64 // N/m, acting down; zero for none
+	Start  float64 // m behind the train's front (its first axle)
+	Length float64 // m
+}
+
+// Train is a set of loads moving together along a stretch of the member.
+type Train struct {
+	Name    string
+	Axles   []Axle
+	Uniform UniformLoad
+	// From and To bound the stretch the train runs along, m; To = 0 means
+	// the member's end. Every position keeps the whole train on it.
+	From, To  float64
+	Direction Direction
+	// Step is the distance between positions, m; 0 derives it from the
+	// mesh (DerivedStep). It is shortened to divide the run evenly.
+	Step float64
+}
+
+// Limits of a train's positions.
+const (
+	// MaxPositions is the most positions a train may take in one direction:
+	// a step finer than that gains nothing a user could see, and the
+	// positions are listed in outputs.
+	MaxPositions = 100000
+	// derivedPositions caps the positions of a step derived from the mesh.
+	derivedPositions = 20000
+)
+
+// CloneTrains copies ts deeply: no slice is shared with ts; nil stays nil.
+func CloneTrains(ts []Train) []Train {
+	if ts == nil {
+		return nil
+	}
+	out := slices.Clone(ts)
+	for i := range out {
+		out[i].Axles = slices.Clone(ts[i].Axles)
+	}
+	return out
+}
+
+// Label names the train in messages: its name, or its number (from 1) in a
+// list when it has none.
+func (t *Train) Label(i int) string {
+	if t.Name != "" {
+		return fmt.Sprintf("train %q", t.Name)
+	}
+	return fmt.Sprintf("train %d", i+1)
+}
+
+// Length is the train's extent behind its front, m: its last axle or the
+// end of its uniform load, whichever is further.
+func (t *Train) Length() float64 {
+	l := 0.0
+	for _, a := range t.Axles[min(1, len(t.Axles)):] {
+		l += a.Spacing
+	}
+	if t.Uniform.Load != 0 {
+		l = max(l, t.Uniform.Start+t.Uniform.Length)
+	}
+	return l
+}
+
+// Run is the stretch the train runs along on a member of length L, m.
+func (t *Train) Run(L float64) (from, to float64) {
+	to = t.To
+	if to == 0 {
+		to = L
+	}
+	return t.From, to
+}
+
+// Problem is one thing wrong with a train: Key is where, as the file's key
+// below the train ("axles[2].spacing"), and Message says what to do.
+type Problem struct {
+	Key, Message string
+}
+
+// Problems lists everything wrong with t on a member of length L: its own
+// problems (OwnProblems), then whether its run lies on the member, whether
+// it fits on its run and how many positions its step gives.
+func (t *Train) Problems(L float64) []Problem {
+	out := t.OwnProblems()
+	if len(out) > 0 {
+		return out // the rest needs a sound train
+	}
+	add := func(key, format string, args ...any) {
+		out = append(out, Problem{key, fmt.Sprintf(format, args...)})
+	}
+	from, to := t.Run(L)
+	switch {
+	case !(from >= 0) || !finite(from) || from >= L:
+		add("from", "the train's run starts at x = %s m, which is not on the member (0 to %s m)", trim(from), trim(L))
+	case !(to > from) || !finite(to) || to > L*(1+keyTolerance):
+		add("to", "the train's run ends at x = %s m: enter a point after its start (%s m) and on the member (up to %s m), or 0 for the member's end", trim(t.To), trim(from), trim(L))
+	}
+	if len(out) > 0 {
+		return out
+	}
+	run, length := to-from, t.Length()
+	if length > run*(1+keyTolerance) {
+		add("", "the train is %s m long and does not fit on the %s m it runs along (x = %s to %s m): shorten the train or lengthen its run", trim(length), trim(run), trim(from), trim(to))
+		return out
+	}
+	if n := positions(run-length, t.Step); t.Step > 0 && n > MaxPositions {
+		add("step", "a step of %s m takes %d positions along the %s m the train can move; Stave takes at most %d: enter a step of at least %s m", trim(t.Step), n, trim(run-length), MaxPositions, trim((run-length)/(MaxPositions-1)))
+	}
+	return out
+}
+
+func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
+
+// OwnProblems lists what is wrong with t whatever member it runs on: its
+// loads, spacings, uniform load, direction and step. A file refuses these;
+// the rest (Problems) depends on the member, which may change after the
+// train was made, and is reported when the train is used.
+func (t *Train) OwnProblems() []Problem {
+	var out []Problem
+	add := func(key, format string, args ...any) {
+		out = append(out, Problem{key, fmt.Sprintf(format, args...)})
+	}
+	if len(t.Axles) == 0 && t.Uniform.Load == 0 {
+		add("", "it has no loads: give it at least one axle or a uniform load")
+	}
+	for i, a := range t.Axles {
+		if !(a.Load > 0) || !finite(a.Load) {
+			add(fmt.Sprintf("axles[%d].load", i), "axle %d has a load of %s N: an axle load is a weight acting down, enter it above zero", i+1, trim(a.Load))
+		}
+		switch {
+		case i == 0 && a.Spacing != 0:
+			add("axles[0].spacing", "the first axle has a spacing of %s m, but nothing stands before it: leave its spacing out (or 0)", trim(a.Spacing))
+		case i > 0 && (!(a.Spacing > 0) || !finite(a.Spacing)):
+			add(fmt.Sprintf("axles[%d].spacing", i), "axle %d stands %s m from axle %d: a spacing must be above zero (two wheels at one place are one axle: add their loads)", i+1, trim(a.Spacing), i)
+		}
+	}
+	if u := t.Uniform; u.Load != 0 || u.Length != 0 || u.Start != 0 {
+		if !(u.Load > 0) || !finite(u.Load) {
+			add("uniform.load", "the uniform load is %s N/m: enter it above zero (acting down), or leave the uniform load out", trim(u.Load))
+		}
+		if !(u.Length > 0) || !finite(u.Length) {
+			add("uniform.length", "the uniform load is %s m long: enter a length above zero", trim(u.Length))
+		}
+		if !(u.Start >= 0) || !finite(u.Start) {
+			add("uniform.start", "the uniform load starts %s m behind the front: enter zero or more", trim(u.Start))
+		}
+	}
+	if t.Direction < BothWays || t.Direction > Backward {
+		add("direction", "the direction is not one of %s", strings.Join(directionNames[:], ", "))
+	}
+	if !(t.From >= 0) || !finite(t.From) {
+		add("from", "the train's run starts at x = %s m: enter zero or more", trim(t.From))
+	}
+	if !(t.To >= 0) || !finite(t.To) {
+		add("to", "the train's run ends at x = %s m: enter a point on the member, or 0 for the member's end", trim(t.To))
+	}
+	if !(t.Step >= 0) || !finite(t.Step) {
+		add("step", "the step is %s m: enter a step above zero, or 0 to take it from the mesh", trim(t.Step))
+	}
+	return out
+}
+
+// Check returns the problems of t as one error naming the train (its
+// number i in a list, when it has no name), or nil.
+func (t *Train) Check(L float64, i int) error {
+	ps := t.Problems(L)
+	if len(ps) == 0 {
+		return nil
+	}
+	msgs := make([]string, len(ps))
+	for k, p := range ps {
+		msgs[k] = p.Message
+	}
+	return errors.New(t.Label(i) + ": " + strings.Join(msgs, "; "))
+}
+
+// positions is the number of positions a step gives over a free run of
+// the given length: the run divided evenly into steps no longer than step,
+// both ends included.
+func positions(free, step float64) int {
+	if free <= 0 {
+		return 1
+	}
+	n := math.Ceil(free / step * (1 - 1e-12))
+	if !(n < 1e15) {
+		return 1e15 // far beyond any limit, and no overflow
+	}
+	return int(n) + 1
+}
+
+// DerivedStep is the step taken from the mesh for a train running from
+// from to to: the mean length of the elements there, but not so short that
+// the train takes more than derivedPositions positions.
+func DerivedStep(mesh fem.Mesh, from, to, trainLength float64) float64 {
+	count := 0
+	for _, e := range mesh.Elements {
+		if mid := 0.5 * (e.Start + e.End); mid >= from && mid <= to {
+			count++
+		}
+	}
+	step := (to - from) / float64(max(count, 1))
+	return max(step, (to-from-trainLength)/derivedPositions)
+}
+
+// Placement is one position of a train: the way it faces and the x of its
+// front (the first axle), m.
+type Placement struct {
+	Direction Direction
+	Front     float64
+}
+
+// Loads are the train's loads at p as fem loads: a point load for each axle
+// and a distributed load for the uniform load, acting down.
+func (t *Train) Loads(p Placement) ([]fem.PointLoad, []fem.DistributedLoad) {
+	sign := -1.0 // behind the front is towards −x for a train moving forward
+	if p.Direction == Backward {
+		sign = 1
+	}
+	var points []fem.PointLoad
+	x := p.Front
+	for i, a := range t.Axles {
+		if i > 0 {
+			x += sign * a.Spacing
+		}
+		points = append(points, fem.PointLoad{X: x, Transverse: -a.Load})
+	}
+	var lines []fem.DistributedLoad
+	if u := t.Uniform; u.Load > 0 {
+		a, b := p.Front+sign*u.Start, p.Front+sign*(u.Start+u.Length)
+		a, b = min(a, b), max(a, b)
+		lines = append(lines, fem.DistributedLoad{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: a, Intensity: -u.Load}, {X: b, Intensity: -u.Load}}})
+	}
+	return points, lines
+}
+
+// Model is m's member and supports with the train at p as its only loads:
+// the model to solve the train at one position by finite elements and in
+// closed form.
+func (t *Train) Model(m *fem.Model, p Placement) fem.Model {
+	c := Unloaded(m)
+	c.PointLoads, c.DistributedLoad = t.Loads(p)
+	return c
+}
+
+// placedAxle is an axle's load (N, down) and offset from the front (m,
+// signed: it stands at front + offset).
+type placedAxle struct{ offset, load float64 }
+
+// run is one direction of a train's positions: fronts s0 + k·step for
+// k < n, numbered first + k in the envelope.
+type run struct {
+	direction Direction
+	s0, step  float64
+	n         int
+	first     int32
+	axles     []placedAxle
+	uniform   bool
+	q, u0, u1 float64 // the uniform load, N/m down, from front + u0 to front + u1
+	// Scratch of scan, kept between calls; fixed are the fronts at which
+	// an axle or an end of the uniform load passes a key point (setKeys).
+	breaks, fixed, moving, offsets, keys []float64
+	candidates, places                   []int
+	axleTerms, uniformTerms              []poly
+	tolerance                            float64 // distance within which an axle stands on a point, m
+}
+
+// runs are t's positions on a member of length L with the given step (0
+// takes it from mesh): one run per direction it moves in.
+func (t *Train) runs(L float64, mesh fem.Mesh) ([]run, error) {
+	if err := t.Check(L, 0); err != nil {
+		return nil, err
+	}
+	from, to := t.Run(L)
+	length := t.Length()
+	step := t.Step
+	if step == 0 {
+		step = DerivedStep(mesh, from, to, length)
+	}
+	free := max(to-from-length, 0)
+	n := positions(free, step)
+	if n > 1 {
+		step = free / float64(n-1)
+	}
+	var out []run
+	for _, d := range []Direction{Forward, Backward} {
+		if t.Direction != BothWays && t.Direction != d {
+			continue
+		}
+		sign := -1.0
+		s0 := from + length
+		if d == Backward {
+			sign, s0 = 1, from
+		}
+		r := run{direction: d, s0: s0, step: step, n: n, first: int32(len(out) * n)}
+		r.tolerance = min(1e-9*L, step/4)
+		offset := 0.0
+		for i, a := range t.Axles {
+			if i > 0 {
+				offset += a.Spacing
+			}
+			r.axles = append(r.axles, placedAxle{sign * offset, a.Load})
+		}
+		if u := t.Uniform; u.Load > 0 {
+			r.uniform, r.q = true, u.Load
+			r.u0, r.u1 = sign*u.Start, sign*(u.Start+u.Length)
+			r.u0, r.u1 = min(r.u0, r.u1), max(r.u0, r.u1)
+		}
+		out = append(out, r)
+	}
+	return out, nil
+}
+
+// front is the x of the front at position k.
+func (r *run) front(k int) float64 { return r.s0 + float64(k)*r.step }

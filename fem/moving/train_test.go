@@ -1,0 +1,299 @@
+package moving
+
+import (
+	"math"
+	"slices"
+	"strings"
+	"testing"
+
+	"stave/fem"
+)
+
+// Two equal loads P a distance d apart crossing a simple beam of span L:
+// the absolute largest moment stands under one load when midspan lies
+// halfway between that load and the resultant, and is P·(2L − d)²/(8L)
+// (as long as d < (2 − √2)·L, else one load alone at midspan gives more).
+// Source: absolute maximum moment under moving concentrated loads,
+// Hibbeler, Structural Analysis, ch. 6, from memory; the value follows by
+// statics.
+func TestTwoEqualLoadsAbsoluteMaximumMoment(t *testing.T) {
+	const L, P, d = 10.0, 10e3, 2.0
+	m := beam(L, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: L, Kind: fem.Roller})
+	in := influence(t, m)
+	tr := &Train{Name: "two equal loads", Axles: []Axle{{Load: P}, {Load: P, Spacing: d}}, Direction: Forward, Step: 0.1}
+	p, _ := fem.Prepare(m)
+	var stations []float64
+	for x := 0.0; x <= L+1e-9; x += 0.05 {
+		stations = append(stations, math.Round(x*100)/100)
+	}
+	e, err := in.Envelope(tr, p.Mesh(), stations)
+	if err != nil {
+		t.Fatal(err)
+	}
+	hi, _ := e.Worst(fem.QBendingMoment)
+	want := P * (2*L - d) * (2*L - d) / (8 * L)
+	if !near(hi.Value, want, 1e-12) {
+		t.Errorf("largest moment: got %.12g N·m, want P·(2L − d)²/(8L) = %.12g", hi.Value, want)
+	}
+	// Under the trailing load at L/2 − d/4 (front at L/2 + 3d/4), or by
+	// symmetry under the front load at L/2 + d/4.
+	under := [][2]float64{{L/2 - d/4, L/2 + 3*d/4}, {L/2 + d/4, L/2 + d/4}}
+	ok := false
+	for _, u := range under {
+		ok = ok || (near(hi.X, u[0], 1e-9) && near(hi.Placement.Front, u[1], 1e-9))
+	}
+	if !ok {
+		t.Errorf("largest moment at x = %g with the front at %g; want x = %g with the front at %g, or x = %g with the front at %g",
+			hi.X, hi.Placement.Front, under[0][0], under[0][1], under[1][0], under[1][1])
+	}
+	// The moment at midspan is less: a load at midspan, the other 2 m off,
+	// gives P·L/4 + P·(L/2 − d)/2 (the triangle of TestSimpleBeamInfluenceLines).
+	mid := slices.Index(stations, L/2)
+	if got, want := e.Max[3][mid], P*L/4+P*(L/2-d)/2; !near(got, want, 1e-12) {
+		t.Errorf("largest moment at midspan: got %.12g, want %.12g", got, want)
+	}
+}
+
+// The envelope's largest and smallest values at each station are those of
+// the train at every position one by one, summed from the influence lines
+// (with an axle exactly on the station taken on both sides of it): three
+// axles and a uniform load moving both ways over part of the knotty
+// member, at stations on key points, on positions the axles reach and
+// between.
+func TestEnvelopeAgainstEveryPosition(t *testing.T) {
+	m := knotty()
+	in := influence(t, m)
+	p, _ := fem.Prepare(m)
+	tr := &Train{
+		Axles:   []Axle{{Load: 40e3}, {Load: 60e3, Spacing: 1.3}, {Load: 25e3, Spacing: 0.7}},
+		Uniform: UniformLoad{Load: 5e3, Start: 0.4, Length: 2.5},
+		From:    0.5, To: 9.5, Step: 0.05,
+	}
+	stations := []float64{0, 0.35, 1.7, 2.95, 3, 3.3, 4, 5, 5.55, 6, 7.2, 8, 8.65, 9.5, 10}
+	e, err := in.Envelope(tr, p.Mesh(), stations)
+	if err != nil {
+		t.Fatal(err)
+	}
+	// The train is 2.9 m long (its uniform load ends 0.4 + 2.5 m behind
+	// the front), so its front moves over 9 − 2.9 = 6.1 m: 122 steps.
+	if e.Positions != 123 || len(e.runs) != 2 {
+		t.Fatalf("got %d positions in %d directions, want 123 in 2", e.Positions, len(e.runs))
+	}
+	for q, qty := range EnvelopeQuantities {
+		var want [][2]extreme
+		scale := 0.0
+		for _, x := range stations {
+			sides := []fem.Side{fem.Left, fem.Right}
+			hi, lo := extreme{at: -1}, extreme{at: -1}
+			for _, side := range sides {
+				l := line(t, in, Target{Quantity: qty, X: x, Side: side})
+				for _, r := range e.runs {
+					for k := range r.n {
+						front := r.front(k)
+						for _, axleSide := range sides {
+							v := r.q * l.Integral(front+r.u0, front+r.u1)
+							for _, a := range r.axles {
+								v += a.load * l.At(front+a.offset, axleSide)
+							}
+							hi.most(v, r.first+int32(k))
+							lo.least(v, r.first+int32(k))
+						}
+					}
+				}
+			}
+			want = append(want, [2]extreme{hi, lo})
+			scale = max(scale, math.Abs(hi.value), math.Abs(lo.value))
+		}
+		for s, x := range stations {
+			if d := e.Max[q][s] - want[s][0].value; math.Abs(d) > 1e-9*scale {
+				t.Errorf("%s at %g: envelope's largest %.12g, every position's %.12g (position %d against %d)", qty, x, e.Max[q][s], want[s][0].value, e.MaxAt[q][s], want[s][0].at)
+			}
+			if d := e.Min[q][s] - want[s][1].value; math.Abs(d) > 1e-9*scale {
+				t.Errorf("%s at %g: envelope's smallest %.12g, every position's %.12g (position %d against %d)", qty, x, e.Min[q][s], want[s][1].value, e.MinAt[q][s], want[s][1].at)
+			}
+		}
+	}
+}
+
+// The worst positions the envelope names give its values when the train is
+// solved there as ordinary loads, by fem's exact solver and by finite
+// elements (which hold the exact moment at the nodes the loads stand on).
+func TestEnvelopeAtItsGoverningPositions(t *testing.T) {
+	m := knotty()
+	m.Mesh = fem.MeshSettings{MaxElementLength: 0.05}
+	in := influence(t, m)
+	p, _ := fem.Prepare(m)
+	tr := &Train{Name: "trolley", Axles: []Axle{{Load: 30e3}, {Load: 30e3, Spacing: 1.5}}, Direction: BothWays, Step: 0.05}
+	e, err := in.Envelope(tr, p.Mesh(), nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, q := range []fem.Quantity{fem.QBendingMoment, fem.QDeflection} {
+		hi, lo := e.Worst(q)
+		for _, ex := range []Extreme{hi, lo} {
+			tm := tr.Model(m, ex.Placement)
+			ee, err := fem.SolveExact(&tm)
+			if err != nil {
+				t.Fatal(err)
+			}
+			sol, err := fem.Solve(&tm)
+			if err != nil {
+				t.Fatal(err)
+			}
+			matches := func(f fem.Field) bool {
+				for _, side := range []fem.Side{fem.Left, fem.Right} {
+					v := f.At(ex.X, side)
+					if math.Abs(q.Of(&v)-ex.Value) <= 1e-9*math.Abs(ex.Value) {
+						return true
+					}
+				}
+				return false
+			}
+			if !matches(ee) || !matches(sol) {
+				fx, sx := ee.At(ex.X, fem.Right), sol.At(ex.X, fem.Right)
+				t.Errorf("%s: the envelope gives %.12g at %g for the train facing %s with its front at %g; solved there, exact %.12g, finite elements %.12g",
+					q, ex.Value, ex.X, ex.Placement.Direction, ex.Placement.Front, q.Of(&fx), q.Of(&sx))
+			}
+		}
+	}
+}
+
+func TestTrainProblems(t *testing.T) {
+	ok := Train{Axles: []Axle{{Load: 10e3}, {Load: 10e3, Spacing: 2}}}
+	for _, c := range []struct {
+		name   string
+		change func(*Train)
+		key    string
+		says   string
+	}{
+		{"too long", func(t *Train) { t.Axles[1].Spacing = 12 }, "", "does not fit on the 10 m"},
+		{"too long for its run", func(t *Train) { t.From, t.To = 3, 4 }, "", "does not fit on the 1 m"},
+		{"zero spacing", func(t *Train) { t.Axles[1].Spacing = 0 }, "axles[1].spacing", "must be above zero"},
+		{"negative spacing", func(t *Train) { t.Axles[1].Spacing = -1 }, "axles[1].spacing", "must be above zero"},
+		{"a spacing before the first axle", func(t *Train) { t.Axles[0].Spacing = 1 }, "axles[0].spacing", "nothing stands before it"},
+		{"millions of positions", func(t *Train) { t.Step = 1e-6 }, "step", "takes 8000001 positions"},
+		{"negative step", func(t *Train) { t.Step = -0.1 }, "step", "enter a step above zero"},
+		{"no loads", func(t *Train) { t.Axles = nil }, "", "no loads"},
+		{"an upward load", func(t *Train) { t.Axles[0].Load = -5 }, "axles[0].load", "above zero"},
+		{"a run that ends before it starts", func(t *Train) { t.From, t.To = 6, 5 }, "to", "after its start"},
+		{"a run off the member", func(t *Train) { t.From = 11 }, "from", "not on the member"},
+		{"a uniform load with no length", func(t *Train) { t.Uniform = UniformLoad{Load: 1e3} }, "uniform.length", "above zero"},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			tr := ok
+			tr.Axles = slices.Clone(ok.Axles)
+			c.change(&tr)
+			ps := tr.Problems(10)
+			found := false
+			for _, p := range ps {
+				found = found || (p.Key == c.key && strings.Contains(p.Message, c.says))
+			}
+			if !found {
+				t.Errorf("problems %+v: want one at %q saying %q", ps, c.key, c.says)
+			}
+		})
+	}
+	if ps := ok.Problems(10); len(ps) != 0 {
+		t.Errorf("a sound train has problems: %+v", ps)
+	}
+}
+
+// A train in a combination on top of fixed loads: at every station the
+// combination's extremes are the fixed loads' field plus the factor times
+// the train's extreme on the side the factor's sign picks, checked against
+// the combination solved at the governing position by fem's exact solver
+// (superposition: the fields are linear in the loads).
+func TestCombinedEnvelope(t *testing.T) {
+	m := knotty()
+	m.Gravity = [2]float64{0, -fem.StandardGravity}
+	m.Segments[0].Material.Density, m.Segments[1].Material.Density = 7850, 7850
+	in := influence(t, m)
+	p, _ := fem.Prepare(m)
+	tr := &Train{Axles: []Axle{{Load: 20e3}, {Load: 35e3, Spacing: 1.8}}, Step: 0.1}
+	stations := []float64{1, 2.5, 5, 7.3, 9}
+	e, err := in.Envelope(tr, p.Mesh(), stations)
+	if err != nil {
+		t.Fatal(err)
+	}
+	own, err := fem.SolveExact(m) // the self-weight alone
+	if err != nil {
+		t.Fatal(err)
+	}
+	base := make([][]float64, len(EnvelopeQuantities))
+	for q, qty := range EnvelopeQuantities {
+		for _, x := range stations {
+			f := own.At(x, fem.Right)
+			base[q] = append(base[q], 1.35*qty.Of(&f))
+		}
+	}
+	for _, factor := range []float64{1.5, -0.8} {
+		c := e.Combine(factor, base, nil)
+		for q, qty := range EnvelopeQuantities {
+			for s, x := range stations {
+				// The largest of base + factor·train over the positions is
+				// base + factor times the train's largest for a positive
+				// factor, its smallest for a negative one.
+				hi, lo := e.Max[q][s], e.Min[q][s]
+				if factor < 0 {
+					hi, lo = lo, hi
+				}
+				if c.Max[q][s] != base[q][s]+factor*hi || c.Min[q][s] != base[q][s]+factor*lo || c.Max[q][s] < c.Min[q][s] {
+					t.Errorf("factor %g, %s at %g: combined %g to %g, want %g to %g", factor, qty, x, c.Min[q][s], c.Max[q][s], base[q][s]+factor*lo, base[q][s]+factor*hi)
+				}
+				for _, got := range []struct {
+					v  float64
+					at int32
+				}{{c.Max[q][s], c.MaxAt[q][s]}, {c.Min[q][s], c.MinAt[q][s]}} {
+					loads := *m
+					loads.PointLoads, _ = tr.Loads(e.Placement(got.at))
+					for i := range loads.PointLoads {
+						loads.PointLoads[i].Transverse *= factor
+					}
+					loads.Gravity = [2]float64{0, -1.35 * fem.StandardGravity}
+					ex, err := fem.SolveExact(&loads)
+					if err != nil {
+						t.Fatal(err)
+					}
+					// An axle standing on x: the envelope holds the limit on
+					// the side that gives more, so either side may match.
+					l, r := ex.At(x, fem.Left), ex.At(x, fem.Right)
+					wl, wr := qty.Of(&l), qty.Of(&r)
+					tol := 1e-9 * max(math.Abs(wl), math.Abs(wr), 1e-12)
+					if math.Abs(got.v-wl) > tol && math.Abs(got.v-wr) > tol {
+						t.Errorf("factor %g, %s at %g: combined envelope %.12g, solved %.12g or %.12g", factor, qty, x, got.v, wl, wr)
+					}
+				}
+			}
+		}
+	}
+}
+
+// A uniform load train as long as a simple span has one position, the whole
+// span loaded: the moment at midspan is q·L²/8, the end reactions q·L/2 and
+// the midspan deflection 5·q·L⁴/(384·E·I) down (simple beam, uniform load;
+// AISC beam diagrams / Roark's Formulas, from memory).
+func TestUniformTrainOverTheWholeSpan(t *testing.T) {
+	const L, q = 8.0, 12e3
+	m := beam(L, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: L, Kind: fem.Roller})
+	p, in := prepared(t, m)
+	tr := &Train{Uniform: UniformLoad{Load: q, Length: L}, Direction: Forward}
+	e, err := in.Envelope(tr, p.Mesh(), []float64{0, L / 4, L / 2})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if e.Positions != 1 {
+		t.Fatalf("%d positions, want the one", e.Positions)
+	}
+	ei := m.Segments[0].Material.Elastic * m.Segments[0].Section.SecondMoment
+	if got, want := e.Max[3][2], q*L*L/8; !near(got, want, 1e-12) {
+		t.Errorf("midspan moment %.12g, want qL²/8 = %.12g", got, want)
+	}
+	if got, want := e.Min[0][2], -5*q*L*L*L*L/(384*ei); !near(got, want, 1e-12) {
+		t.Errorf("midspan deflection %.12g, want −5qL⁴/(384EI) = %.12g", got, want)
+	}
+	for _, r := range e.Reactions {
+		if !near(r.Max, q*L/2, 1e-12) || !near(r.Min, q*L/2, 1e-12) {
+			t.Errorf("reaction of support %d from %g to %g, want qL/2 = %g", r.Support+1, r.Min, r.Max, q*L/2)
+		}
+	}
+}

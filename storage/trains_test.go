@@ -1,0 +1,111 @@
+package storage
+
+import (
+	"reflect"
+	"strings"
+	"testing"
+
+	"stave/fem/moving"
+)
+
+// Trains (version 2) survive saving and loading, and are written in the
+// canonical form docs/format.md shows.
+func TestTrainsRoundTrip(t *testing.T) {
+	p := goldenProject()
+	p.Trains = []moving.Train{
+		{Name: "hoist trolley", Axles: []moving.Axle{{Load: 18e3}, {Load: 18e3, Spacing: 1.2}}, Direction: moving.Forward, Step: 0.05},
+		{Axles: []moving.Axle{{Load: 5e3}}, Uniform: moving.UniformLoad{Load: 2e3, Start: 0.5, Length: 1.5}, From: 0.5, To: 3.5},
+	}
+	data := mustMarshal(t, p)
+	want := `  "trains": [
+    {
+      "name": "hoist trolley",
+      "axles": [
+        {
+          "load": 18000
+        },
+        {
+          "load": 18000,
+          "spacing": 1.2
+        }
+      ],
+      "direction": "forward",
+      "step": 0.05
+    },
+    {
+      "axles": [
+        {
+          "load": 5000
+        }
+      ],
+      "uniform": {
+        "load": 2000,
+        "start": 0.5,
+        "length": 1.5
+      },
+      "from": 0.5,
+      "to": 3.5
+    }
+  ],
+  "mesh": {`
+	if !strings.Contains(string(data), want) {
+		t.Errorf("the trains are not written as expected; the file:\n%s", data)
+	}
+	back, err := Unmarshal(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !reflect.DeepEqual(back.Trains, p.Trains) {
+		t.Errorf("read back %+v, want %+v", back.Trains, p.Trains)
+	}
+}
+
+// A file's trains are checked like the rest of it: each problem at its
+// place, in the train's own words.
+func TestTrainProblemsInFiles(t *testing.T) {
+	for _, c := range []struct {
+		name, trains, path, says string
+	}{
+		{"zero spacing", `[{"axles": [{"load": 1000}, {"load": 1000, "spacing": 0}]}]`, "trains[0].axles[1].spacing", "must be above zero"},
+		{"negative step", `[{"axles": [{"load": 1000}], "step": -0.1}]`, "trains[0].step", `train 1: the step is -0.1 m`},
+		{"unknown direction", `[{"axles": [{"load": 1000}], "direction": "sideways"}]`, "trains[0].direction", `"sideways" is not a direction`},
+		{"unknown key", `[{"axles": [{"load": 1000, "weight": 3}]}]`, "trains[0].axles[0].weight", ""},
+		{"missing load", `[{"axles": [{"spacing": 2}]}]`, "trains[0].axles[0].load", ""},
+		{"a name with a control character", `[{"name": "a\u0007b", "axles": [{"load": 1000}]}]`, "trains[0].name", "control character"},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			data := strings.Replace(string(mustMarshal(t, goldenProject())), `  "mesh": {`, `  "trains": `+c.trains+",\n"+`  "mesh": {`, 1)
+			_, err := Unmarshal([]byte(data))
+			le, ok := err.(*LoadError)
+			if !ok {
+				t.Fatalf("got %v, want a *LoadError", err)
+			}
+			for _, p := range le.Problems {
+				if p.Path == c.path && strings.Contains(p.Message, c.says) {
+					return
+				}
+			}
+			t.Errorf("problems %v: want one at %s saying %q", le.Problems, c.path, c.says)
+		})
+	}
+}
+
+// A train that does not fit on the member, or whose step gives too many
+// positions on it, stays in the file: shortening the member in the window
+// must not make a file that no longer opens. It is reported when used.
+func TestTrainsThatDoNotFitStillOpen(t *testing.T) {
+	p := goldenProject() // a member of 4 m
+	p.Trains = []moving.Train{
+		{Name: "long", Axles: []moving.Axle{{Load: 1000}, {Load: 1000, Spacing: 9}}},
+		{Name: "fine", Axles: []moving.Axle{{Load: 1000}}, Step: 1e-6},
+	}
+	back, err := Unmarshal(mustMarshal(t, p))
+	if err != nil {
+		t.Fatalf("the file does not open: %v", err)
+	}
+	for i, says := range []string{"does not fit on the 4 m", "Stave takes at most 100000"} {
+		if err := back.Trains[i].Check(back.Model.Length(), i); err == nil || !strings.Contains(err.Error(), says) {
+			t.Errorf("train %d: %v, want a message saying %q", i+1, err, says)
+		}
+	}
+}
