@@ -81,9 +81,10 @@ func (x *extremes) Visit(v *ElementView) {
 	start, end := fe.End(0).values(), fe.End(1).values()
 	x0, x1 := fe.Start, fe.Start+fe.Length
 	for q := range Quantity(quantityCount) {
-		if q < QCombinedStress && !turnsInside(&fe.poly[q], fe.degree[q]) {
-			// Monotone (linear, say): the ends, start first, as Range would
-			// give them; read here without its bookkeeping.
+		if q < QCombinedStress && !x.insideBeyond(q, fe) || q == QCombinedStress && fe.combinedLinear() {
+			// No value inside can go beyond the extremes so far (a
+			// quantity that is linear, say): the ends, start first, as
+			// Range would give them.
 			x.take(q, Point{x0, start[q]}, Point{x0, start[q]})
 			x.take(q, Point{x1, end[q]}, Point{x1, end[q]})
 			continue
@@ -91,6 +92,25 @@ func (x *extremes) Visit(v *ElementView) {
 		lo, hi := fe.Range(q)
 		x.take(q, lo, hi)
 	}
+}
+
+// insideBeyond reports whether a value of polynomial quantity q inside fe
+// may lie beyond the extremes so far: not for a linear one, nor where the
+// polynomial's Bernstein coefficients, whose hull holds it, lie within.
+func (x *extremes) insideBeyond(q Quantity, fe *Interval) bool {
+	p, lo, hi := &fe.poly[q], x.lo[q].Value, x.hi[q].Value
+	switch fe.degree[q] {
+	case 0, 1:
+		return false
+	case 2:
+		b1 := p[0] + p[1]/2
+		return b1 < lo || b1 > hi
+	case 3:
+		b1 := p[0] + p[1]*(1.0/3)
+		b2 := b1 + (p[1]+p[2])*(1.0/3)
+		return b1 < lo || b1 > hi || b2 < lo || b2 > hi
+	}
+	return true
 }
 
 // take keeps lo and hi where they are beyond the extremes of q so far.

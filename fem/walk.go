@@ -36,6 +36,9 @@ type Interval struct {
 	// exact solution.
 	solution *Solution
 	element  int
+	// size is, for the exact solution, the sums of the magnitudes of the
+	// stretch's coefficients of u and w (m): the scale of their round-off.
+	size [2]float64
 	// ranges are the results of Range, taken once per interval: known
 	// holds a bit per quantity whose range is there.
 	ranges [quantityCount][2]extremum
@@ -109,20 +112,41 @@ func (v *Interval) Range(q Quantity) (lo, hi Point) {
 	r := &v.ranges[q]
 	if v.known&(1<<q) == 0 {
 		switch {
+		case q == QCombinedStress && v.combinedLinear():
+			r[0], r[1] = endsRange(v.End(0).CombinedStress, v.End(1).CombinedStress)
 		case q == QCombinedStress:
 			r[0], r[1] = v.combinedRange()
 		case !turnsInside(&v.poly[q], v.degree[q]):
 			// Monotone: the ends.
-			a, b := q.Of(v.End(0)), q.Of(v.End(1))
-			r[0], r[1] = extremum{0, a}, extremum{0, a}
-			r[0].least(1, b)
-			r[1].most(1, b)
+			r[0], r[1] = endsRange(q.Of(v.End(0)), q.Of(v.End(1)))
 		default:
 			r[0], r[1] = rangeOn(&v.poly[q], v.degree[q], q.Of(v.End(0)), q.Of(v.End(1)))
 		}
 		v.known |= 1 << q
 	}
 	return Point{v.X(r[0].xi), r[0].value}, Point{v.X(r[1].xi), r[1].value}
+}
+
+// endsRange is the range of a quantity that does not turn inside an
+// interval, a at its start and b at its end; the start wins a tie.
+func endsRange(a, b float64) (lo, hi extremum) {
+	lo, hi = extremum{0, a}, extremum{0, a}
+	lo.least(1, b)
+	hi.most(1, b)
+	return lo, hi
+}
+
+// combinedLinear reports whether the combined stress is one linear
+// polynomial on v, the larger fibre the same throughout: the axial and
+// bending stresses are linear and pieces.splitLinearFibres would not cut.
+func (v *Interval) combinedLinear() bool {
+	if v.degree[QAxialStress] > 1 || v.degree[QBendingStress] > 1 {
+		return false
+	}
+	a, b := &v.poly[QAxialStress], &v.poly[QBendingStress]
+	a1, b1 := a[0]+a[1], b[0]+b[1]
+	return (b[0] < 0) == (b1 < 0) && (a[0] < 0) == (a1 < 0) &&
+		min(math.Abs(a[0]), math.Abs(a1)) > fibreTie*max(math.Abs(b[0]), math.Abs(b1))
 }
 
 // endsFromPolynomials sets the ends to the polynomials' values at ξ = 0 (their
@@ -337,6 +361,7 @@ func newWalker(s *Solution, e *Exact) *walker {
 		w.exact = e
 		w.view.HasExact = true
 		w.view.Exact.degree = exactDegrees
+		w.view.Exact.size = e.stretches[0].sizes()
 	}
 	w.view.FE.degree = s.degrees()
 	return w
@@ -361,6 +386,7 @@ func (w *walker) exactOn(v *ElementView) {
 	mid := v.Start + (v.End-v.Start)/2
 	if w.stretch+1 < len(st) && st[w.stretch+1].start <= mid {
 		w.stretch = sort.Search(len(st), func(j int) bool { return st[j].start > mid }) - 1
+		v.Exact.size = st[w.stretch].sizes()
 	}
 	s := &st[w.stretch]
 	t0 := (v.Start - s.start) / s.length
@@ -368,6 +394,18 @@ func (w *walker) exactOn(v *ElementView) {
 		t0 = 0
 	}
 	s.interval(t0, (v.End-v.Start)/s.length, v.Start, v.End-v.Start, &v.Exact)
+}
+
+// sizes are the sums of the magnitudes of the stretch's coefficients of u
+// and w, m: the scale of round-off in their values (Interval.size).
+func (s *exactStretch) sizes() [2]float64 {
+	var out [2]float64
+	for i, c := range [2][]float64{s.bar.coeff, s.beam.coeff} {
+		for _, v := range c {
+			out[i] += math.Abs(v)
+		}
+	}
+	return out
 }
 
 // exactDegrees are the degrees of the exact fields on a stretch under a
@@ -382,24 +420,29 @@ var exactDegrees = [polynomialQuantities]int{
 // stretch, an interval starting at start (m) of length h (m): u and w
 // shifted to t0 (repeated synthetic division, Knuth, TAOCP vol. 2, 4.6.4,
 // from memory) and scaled to the interval, the rest their derivatives.
+// The coefficients are written one by one: a walk calls this for every
+// element.
 func (s *exactStretch) interval(t0, scale, start, h float64, v *Interval) {
-	var u, w Polynomial
-	copy(u[:], s.bar.coeff)
+	p := &v.poly
+	u, w := &p[QAxialDisplacement], &p[QDeflection]
+	copy(u[:4], s.bar.coeff)
 	copy(w[:], s.beam.coeff)
-	taylorShift(&u, t0, scale)
-	taylorShift(&w, t0, scale)
+	cubicTaylorShift(u, t0, scale)
+	taylorShift(w, t0, scale)
 	ih := 1 / h
 	ea, ei := s.bar.stiffness*ih, s.beam.stiffness*ih*ih
 	ia, ci := 1/s.area, s.fibre/s.secondMoment
-	p := &v.poly
-	p[QAxialDisplacement], p[QDeflection] = u, w
-	p[QRotation] = Polynomial{w[1] * ih, 2 * w[2] * ih, 3 * w[3] * ih, 4 * w[4] * ih, 5 * w[5] * ih}
-	p[QAxialForce] = Polynomial{ea*u[1] + s.bar.offset, 2 * ea * u[2], 3 * ea * u[3]}
-	p[QShearForce] = Polynomial{6 * ei * ih * w[3], 24 * ei * ih * w[4], 60 * ei * ih * w[5]}
-	p[QBendingMoment] = Polynomial{2 * ei * w[2], 6 * ei * w[3], 12 * ei * w[4], 20 * ei * w[5]}
-	n, m := &p[QAxialForce], &p[QBendingMoment]
-	p[QAxialStress] = Polynomial{n[0] * ia, n[1] * ia, n[2] * ia}
-	p[QBendingStress] = Polynomial{m[0] * ci, m[1] * ci, m[2] * ci, m[3] * ci}
+	r := &p[QRotation]
+	r[0], r[1], r[2], r[3], r[4] = w[1]*ih, 2*w[2]*ih, 3*w[3]*ih, 4*w[4]*ih, 5*w[5]*ih
+	n := &p[QAxialForce]
+	n[0], n[1], n[2] = ea*u[1]+s.bar.offset, 2*ea*u[2], 3*ea*u[3]
+	vs := &p[QShearForce]
+	vs[0], vs[1], vs[2] = 6*ei*ih*w[3], 24*ei*ih*w[4], 60*ei*ih*w[5]
+	m := &p[QBendingMoment]
+	m[0], m[1], m[2], m[3] = 2*ei*w[2], 6*ei*w[3], 12*ei*w[4], 20*ei*w[5]
+	sa, sb := &p[QAxialStress], &p[QBendingStress]
+	sa[0], sa[1], sa[2] = n[0]*ia, n[1]*ia, n[2]*ia
+	sb[0], sb[1], sb[2], sb[3] = m[0]*ci, m[1]*ci, m[2]*ci, m[3]*ci
 	v.Start, v.Length = start, h
 	v.degree = exactDegrees
 	v.known, v.endsKnown = 0, false
@@ -426,6 +469,19 @@ func taylorShift(p *Polynomial, t0, scale float64) {
 	s2 := scale * scale
 	s4 := s2 * s2
 	p[1], p[2], p[3], p[4], p[5] = p[1]*scale, p[2]*s2, p[3]*s2*scale, p[4]*s4, p[5]*s4*scale
+}
+
+// cubicTaylorShift is taylorShift for p of degree 3 at most, whose other
+// steps add zeros: the same result to the bit.
+func cubicTaylorShift(p *Polynomial, t0, scale float64) {
+	p[2] += t0 * p[3]
+	p[1] += t0 * p[2]
+	p[0] += t0 * p[1]
+	p[2] += t0 * p[3]
+	p[1] += t0 * p[2]
+	p[2] += t0 * p[3]
+	s2 := scale * scale
+	p[1], p[2], p[3] = p[1]*scale, p[2]*s2, p[3]*s2*scale
 }
 
 // Intervals returns the exact solution stretch by stretch, between
