@@ -78,37 +78,68 @@ func newExtremes() *extremes {
 func (x *extremes) Visit(v *ElementView) {
 	x.seen = true
 	fe := &v.FE
-	start, end := fe.End(0).values(), fe.End(1).values()
+	a, b := fe.End(0), fe.End(1)
 	x0, x1 := fe.Start, fe.Start+fe.Length
-	for q := range Quantity(quantityCount) {
-		if q < QCombinedStress && !x.insideBeyond(q, fe) || q == QCombinedStress && fe.combinedLinear() {
-			// No value inside can go beyond the extremes so far (a
-			// quantity that is linear, say): the ends, start first, as
-			// Range would give them.
-			x.take(q, Point{x0, start[q]}, Point{x0, start[q]})
-			x.take(q, Point{x1, end[q]}, Point{x1, end[q]})
-			continue
-		}
+	x.quantity(fe, QAxialDisplacement, x0, a.AxialDisplacement, x1, b.AxialDisplacement)
+	x.quantity(fe, QDeflection, x0, a.Deflection, x1, b.Deflection)
+	x.quantity(fe, QRotation, x0, a.Rotation, x1, b.Rotation)
+	x.quantity(fe, QAxialForce, x0, a.AxialForce, x1, b.AxialForce)
+	x.quantity(fe, QShearForce, x0, a.ShearForce, x1, b.ShearForce)
+	x.quantity(fe, QBendingMoment, x0, a.BendingMoment, x1, b.BendingMoment)
+	x.quantity(fe, QAxialStress, x0, a.AxialStress, x1, b.AxialStress)
+	x.quantity(fe, QBendingStress, x0, a.BendingStress, x1, b.BendingStress)
+	// Range, kept by the interval for the walk's other visitors.
+	lo, hi := fe.Range(QCombinedStress)
+	x.take(QCombinedStress, lo, hi)
+}
+
+// quantity takes polynomial quantity q on fe, valued a at its start x0 and
+// b at its end x1: its ends where no value inside can go beyond the
+// extremes so far (a quantity that is linear, say), as Range would give
+// them, else its Range.
+func (x *extremes) quantity(fe *Interval, q Quantity, x0, a, x1, b float64) {
+	if fe.degree[q] >= 2 && x.insideBeyond(q, fe, a, b) {
 		lo, hi := fe.Range(q)
 		x.take(q, lo, hi)
+		return
+	}
+	x.ends(q, x0, a, x1, b)
+}
+
+// ends takes the values a at x0 and b at x1 of q, the first winning a tie.
+func (x *extremes) ends(q Quantity, x0, a, x1, b float64) {
+	lo, hi := &x.lo[q], &x.hi[q]
+	if a < lo.Value {
+		*lo = Point{x0, a}
+	}
+	if a > hi.Value {
+		*hi = Point{x0, a}
+	}
+	if b < lo.Value {
+		*lo = Point{x1, b}
+	}
+	if b > hi.Value {
+		*hi = Point{x1, b}
 	}
 }
 
-// insideBeyond reports whether a value of polynomial quantity q inside fe
-// may lie beyond the extremes so far: not for a linear one, nor where the
-// polynomial's Bernstein coefficients, whose hull holds it, lie within.
-func (x *extremes) insideBeyond(q Quantity, fe *Interval) bool {
-	p, lo, hi := &fe.poly[q], x.lo[q].Value, x.hi[q].Value
+// insideBeyond reports whether a value inside fe of polynomial quantity q,
+// of degree 2 or more and valued a and b at the ends, may lie beyond the
+// extremes so far or the ends: not where the polynomial's Bernstein
+// coefficients, whose hull holds it, lie within them (strictly within the
+// ends, which Range would not prefer to a value inside on a tie).
+func (x *extremes) insideBeyond(q Quantity, fe *Interval, a, b float64) bool {
+	p := &fe.poly[q]
+	lo, hi := x.lo[q].Value, x.hi[q].Value
+	beyond := func(c float64) bool {
+		return c < lo && c <= min(a, b) || c > hi && c >= max(a, b)
+	}
 	switch fe.degree[q] {
-	case 0, 1:
-		return false
 	case 2:
-		b1 := p[0] + p[1]/2
-		return b1 < lo || b1 > hi
+		return beyond(p[0] + p[1]/2)
 	case 3:
 		b1 := p[0] + p[1]*(1.0/3)
-		b2 := b1 + (p[1]+p[2])*(1.0/3)
-		return b1 < lo || b1 > hi || b2 < lo || b2 > hi
+		return beyond(b1) || beyond(b1+(p[1]+p[2])*(1.0/3))
 	}
 	return true
 }

@@ -425,8 +425,9 @@ var exactDegrees = [polynomialQuantities]int{
 func (s *exactStretch) interval(t0, scale, start, h float64, v *Interval) {
 	p := &v.poly
 	u, w := &p[QAxialDisplacement], &p[QDeflection]
-	copy(u[:4], s.bar.coeff)
-	copy(w[:], s.beam.coeff)
+	c, d := s.bar.coeff[:4:4], s.beam.coeff[:6:6]
+	u[0], u[1], u[2], u[3] = c[0], c[1], c[2], c[3]
+	w[0], w[1], w[2], w[3], w[4], w[5] = d[0], d[1], d[2], d[3], d[4], d[5]
 	cubicTaylorShift(u, t0, scale)
 	taylorShift(w, t0, scale)
 	ih := 1 / h
