@@ -176,6 +176,7 @@ func (s *Solution) elementInterval(e int, v *Interval) {
 	p[QAxialStress][0], p[QAxialStress][1] = start.AxialStress, end.AxialStress-start.AxialStress
 	p[QBendingStress][0], p[QBendingStress][1] = start.BendingStress, end.BendingStress-start.BendingStress
 	v.endsKnown, v.known = true, 0
+	v.oneFibre = v.degree[QAxialStress] <= 1 && v.degree[QBendingStress] <= 1 && oneFibre(&p[QAxialStress], &p[QBendingStress])
 }
 
 // Varies says how quantity q varies inside the elements of s, as the

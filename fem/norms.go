@@ -292,7 +292,7 @@ func combinedError(fe, ex *Interval, best float64) extremum {
 	if d <= 3 && cubicBound(&da)+cubicBound(&db) <= best {
 		return extremum{value: -1} // |σa error| + |σb error| cannot beat best
 	}
-	if fe.combinedLinear() { // one piece, as splitFibres would leave it
+	if fe.oneFibre { // one piece, as splitFibres would leave it
 		g := combine(1, &da, fibreSign(fa.at(dfe, 0.5), fb.at(dfe, 0.5)), &db)
 		return maxAbs(&g, d)
 	}

@@ -39,6 +39,9 @@ type Interval struct {
 	// size is, for the exact solution, the sums of the magnitudes of the
 	// stretch's coefficients of u and w (m): the scale of their round-off.
 	size [2]float64
+	// oneFibre says the combined stress is one linear polynomial on the
+	// interval (see oneFibre); false where it may not be.
+	oneFibre bool
 	// ranges are the results of Range, taken once per interval: known
 	// holds a bit per quantity whose range is there.
 	ranges [quantityCount][2]extremum
@@ -111,20 +114,25 @@ func (v *Interval) Range(q Quantity) (lo, hi Point) {
 	}
 	r := &v.ranges[q]
 	if v.known&(1<<q) == 0 {
-		switch {
-		case q == QCombinedStress && v.combinedLinear():
-			r[0], r[1] = endsRange(v.End(0).CombinedStress, v.End(1).CombinedStress)
-		case q == QCombinedStress:
-			r[0], r[1] = v.combinedRange()
-		case !turnsInside(&v.poly[q], v.degree[q]):
-			// Monotone: the ends.
-			r[0], r[1] = endsRange(q.Of(v.End(0)), q.Of(v.End(1)))
-		default:
-			r[0], r[1] = rangeOn(&v.poly[q], v.degree[q], q.Of(v.End(0)), q.Of(v.End(1)))
-		}
+		v.rangeOf(q, r)
 		v.known |= 1 << q
 	}
 	return Point{v.X(r[0].xi), r[0].value}, Point{v.X(r[1].xi), r[1].value}
+}
+
+// rangeOf works out Range of q into r.
+func (v *Interval) rangeOf(q Quantity, r *[2]extremum) {
+	switch {
+	case q == QCombinedStress && v.oneFibre:
+		r[0], r[1] = endsRange(v.End(0).CombinedStress, v.End(1).CombinedStress)
+	case q == QCombinedStress:
+		r[0], r[1] = v.combinedRange()
+	case v.degree[q] <= 1 || !turnsInside(&v.poly[q], v.degree[q]):
+		// Monotone: the ends.
+		r[0], r[1] = endsRange(q.Of(v.End(0)), q.Of(v.End(1)))
+	default:
+		r[0], r[1] = rangeOn(&v.poly[q], v.degree[q], q.Of(v.End(0)), q.Of(v.End(1)))
+	}
 }
 
 // endsRange is the range of a quantity that does not turn inside an
@@ -136,14 +144,10 @@ func endsRange(a, b float64) (lo, hi extremum) {
 	return lo, hi
 }
 
-// combinedLinear reports whether the combined stress is one linear
-// polynomial on v, the larger fibre the same throughout: the axial and
-// bending stresses are linear and pieces.splitLinearFibres would not cut.
-func (v *Interval) combinedLinear() bool {
-	if v.degree[QAxialStress] > 1 || v.degree[QBendingStress] > 1 {
-		return false
-	}
-	a, b := &v.poly[QAxialStress], &v.poly[QBendingStress]
+// oneFibre reports whether the combined stress of linear axial and
+// bending stresses a and b is one linear polynomial, the larger fibre the
+// same throughout: pieces.splitLinearFibres would not cut.
+func oneFibre(a, b *Polynomial) bool {
 	a1, b1 := a[0]+a[1], b[0]+b[1]
 	return (b[0] < 0) == (b1 < 0) && (a[0] < 0) == (a1 < 0) &&
 		min(math.Abs(a[0]), math.Abs(a1)) > fibreTie*max(math.Abs(b[0]), math.Abs(b1))
@@ -446,7 +450,7 @@ func (s *exactStretch) interval(t0, scale, start, h float64, v *Interval) {
 	sb[0], sb[1], sb[2], sb[3] = m[0]*ci, m[1]*ci, m[2]*ci, m[3]*ci
 	v.Start, v.Length = start, h
 	v.degree = exactDegrees
-	v.known, v.endsKnown = 0, false
+	v.known, v.endsKnown, v.oneFibre = 0, false, false
 }
 
 // taylorShift turns p(t) into q(ξ) = p(t0 + scale·ξ). The steps are

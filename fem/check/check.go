@@ -330,7 +330,12 @@ func (p *Probe) takeDeflection(k int, v *fem.Interval, c *chordLine) {
 	if w.MaxAbsBound() <= p.deflection[k].value {
 		return // it cannot beat the peak so far
 	}
-	lo, hi := v.RangeOf(&w)
+	var lo, hi fem.Point
+	if endsHold(&w) {
+		lo, hi = endsOnly(v, w[0], w.At(1))
+	} else {
+		lo, hi = v.RangeOf(&w)
+	}
 	best := hi
 	if math.Abs(lo.Value) > math.Abs(hi.Value) {
 		best = lo
@@ -338,6 +343,35 @@ func (p *Probe) takeDeflection(k int, v *fem.Interval, c *chordLine) {
 	if math.Abs(best.Value) > p.deflection[k].value {
 		p.deflection[k] = peak{math.Abs(best.Value), best.X}
 	}
+}
+
+// endsHold reports whether w, a cubic, lies strictly between its values at
+// the ends inside the interval: its inner Bernstein coefficients do, and
+// its hull holds it (Farin, Curves and Surfaces for CAGD, ch. 5, from
+// memory). Its range is then its ends', and no search is needed.
+func endsHold(w *fem.Polynomial) bool {
+	if w[4] != 0 || w[5] != 0 {
+		return false
+	}
+	end := w[0] + w[1] + w[2] + w[3]
+	lo, hi := min(w[0], end), max(w[0], end)
+	b1 := w[0] + w[1]/3
+	b2 := b1 + (w[1]+w[2])/3
+	return lo < b1 && b1 < hi && lo < b2 && b2 < hi
+}
+
+// endsOnly is the range of a quantity valued a at the start of v and b at
+// its end with nothing beyond them inside: the start wins a tie, as in
+// Interval.RangeOf.
+func endsOnly(v *fem.Interval, a, b float64) (lo, hi fem.Point) {
+	lo, hi = fem.Point{X: v.X(0), Value: a}, fem.Point{X: v.X(0), Value: a}
+	if b < a {
+		lo = fem.Point{X: v.X(1), Value: b}
+	}
+	if b > a {
+		hi = fem.Point{X: v.X(1), Value: b}
+	}
+	return lo, hi
 }
 
 // takeCompression takes the largest −N on v for column k.
