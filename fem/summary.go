@@ -78,32 +78,21 @@ func newExtremes() *extremes {
 func (x *extremes) Visit(v *ElementView) {
 	x.seen = true
 	fe := &v.FE
-	a, b := fe.End(0), fe.End(1)
+	a, b := fe.End(0).values(), fe.End(1).values()
 	x0, x1 := fe.Start, fe.Start+fe.Length
-	x.quantity(fe, QAxialDisplacement, x0, a.AxialDisplacement, x1, b.AxialDisplacement)
-	x.quantity(fe, QDeflection, x0, a.Deflection, x1, b.Deflection)
-	x.quantity(fe, QRotation, x0, a.Rotation, x1, b.Rotation)
-	x.quantity(fe, QAxialForce, x0, a.AxialForce, x1, b.AxialForce)
-	x.quantity(fe, QShearForce, x0, a.ShearForce, x1, b.ShearForce)
-	x.quantity(fe, QBendingMoment, x0, a.BendingMoment, x1, b.BendingMoment)
-	x.quantity(fe, QAxialStress, x0, a.AxialStress, x1, b.AxialStress)
-	x.quantity(fe, QBendingStress, x0, a.BendingStress, x1, b.BendingStress)
+	for q := range Quantity(polynomialQuantities) {
+		// Where no value inside can go beyond the extremes so far (a
+		// quantity that is linear, say), the ends, as Range would give them.
+		if fe.degree[q] >= 2 && x.insideBeyond(q, fe, a[q], b[q]) {
+			lo, hi := fe.Range(q)
+			x.take(q, lo, hi)
+		} else {
+			x.ends(q, x0, a[q], x1, b[q])
+		}
+	}
 	// Range, kept by the interval for the walk's other visitors.
 	lo, hi := fe.Range(QCombinedStress)
 	x.take(QCombinedStress, lo, hi)
-}
-
-// quantity takes polynomial quantity q on fe, valued a at its start x0 and
-// b at its end x1: its ends where no value inside can go beyond the
-// extremes so far (a quantity that is linear, say), as Range would give
-// them, else its Range.
-func (x *extremes) quantity(fe *Interval, q Quantity, x0, a, x1, b float64) {
-	if fe.degree[q] >= 2 && x.insideBeyond(q, fe, a, b) {
-		lo, hi := fe.Range(q)
-		x.take(q, lo, hi)
-		return
-	}
-	x.ends(q, x0, a, x1, b)
 }
 
 // ends takes the values a at x0 and b at x1 of q, the first winning a tie.
