@@ -13,10 +13,12 @@ import (
 // most). A walk hands each element to its consumers as an ElementView: both
 // solutions on the element as polynomials in the element's own coordinate,
 // so extremes come from the roots of derivatives and error norms from
-// Gauss–Legendre rules exact for the degrees involved, with no search and
-// no sampling. Consumers are Visitors (the summary's extremes, the error
-// comparison, the checks' probes) or range over Solution.Elements (the
-// drawing's pixel columns, the CSV rows).
+// closed forms (the element errors are bubbles where the nodal values
+// agree) or Gauss–Legendre rules exact for the degrees involved, with no
+// sampling; bounds skip what cannot change a result. Consumers are
+// Visitors (the summary's extremes, the error comparison, the checks'
+// probes) or range over Solution.Elements (the drawing's pixel columns,
+// the CSV rows).
 
 // Interval is one interval of the member, an element or a stretch of the
 // exact solution between key points, with every result quantity on it as a
