@@ -374,8 +374,20 @@ func endsOnly(v *fem.Interval, a, b float64) (lo, hi fem.Point) {
 	return lo, hi
 }
 
-// takeCompression takes the largest −N on v for column k.
+// takeCompression takes the largest −N on v for column k: at an end where
+// N is linear on v (the elements of fem), as Range would give it, else from
+// Range.
 func (p *Probe) takeCompression(k int, v *fem.Interval) {
+	if n, _ := v.Polynomial(fem.QAxialForce); n[2] == 0 && n[3] == 0 && n[4] == 0 && n[5] == 0 {
+		at, least := v.X(0), v.End(0).AxialForce
+		if b := v.End(1).AxialForce; b < least {
+			at, least = v.X(1), b
+		}
+		if -least > p.compression[k].value {
+			p.compression[k] = peak{-least, at}
+		}
+		return
+	}
 	lo, _ := v.Range(fem.QAxialForce)
 	if n := -lo.Value; n > p.compression[k].value {
 		p.compression[k] = peak{n, lo.X}
