@@ -368,7 +368,7 @@ func (f *addForm) located(key, message string) string {
 // item are placed under the field that holds the value, others stand alone.
 func (f *addForm) modelProblems(m *fem.Model, item fem.Item) []string {
 	var invalid *fem.ValidationError
-	if err := validate(m); !errors.As(err, &invalid) {
+	if err := f.w.validate(m); !errors.As(err, &invalid) {
 		if err != nil {
 			return []string{err.Error()}
 		}

@@ -39,7 +39,7 @@ type exportSource struct {
 
 // exportSource copies the window's project and, when current and complete, its analysis.
 func (w *Window) exportSource() exportSource {
-	p := cloneProject(w.project)
+	p := w.canonical()
 	out := exportSource{src: report.Source{Project: &p, Units: w.units, Dimensions: w.dimensions}}
 	if a := w.result; a != nil && a.seq == w.pending && a.Complete {
 		out.src.Analysis, out.src.Findings = &a.Analysis, w.checks

@@ -17,6 +17,7 @@ import (
 	native "github.com/sqweek/dialog"
 
 	"stave/canvas/report"
+	"stave/fem/analysis"
 	"stave/storage"
 )
 
@@ -257,6 +258,8 @@ func (w *Window) openPath(path string) {
 // replaceProject shows p (from path) with a fresh undo history.
 func (w *Window) replaceProject(p *storage.Project, path string) {
 	w.project, w.saved, w.path = cloneProject(*p), cloneProject(*p), path
+	w.editCase, w.show = 0, analysis.Show{}
+	w.project.Model = liftCase(w.project.Model, 0)
 	w.hist = history{}
 	w.selected = canvasNone
 	w.highlight = [2]float64{}
@@ -282,12 +285,13 @@ func (w *Window) saveAs(then func()) {
 }
 
 func (w *Window) writeProject(path string, then func()) {
-	if err := storage.Save(path, &w.project); err != nil {
+	p := w.canonical()
+	if err := storage.Save(path, &p); err != nil {
 		dialog.ShowError(fmt.Errorf("the member was not saved: %w", err), w.win)
 		return
 	}
 	w.path = path
-	w.saved = cloneProject(w.project)
+	w.saved = p
 	w.addRecent(path)
 	w.discardAutosave()
 	w.updateTitle()
@@ -295,7 +299,7 @@ func (w *Window) writeProject(path string, then func()) {
 	// Work in progress is saved as it is, so nothing is lost; say so when
 	// the file would not open again as it stands, before closing the window
 	// or leaving the member for another.
-	if err := storage.Validate(&w.project); err != nil {
+	if err := storage.Validate(&p); err != nil {
 		w.warnUnloadable(path, err, then)
 		return
 	}
@@ -385,7 +389,8 @@ func (w *Window) autosave() {
 		w.discardAutosave()
 		return
 	}
-	if err := storage.WriteRecovery(w.recoveryDir, &w.project, w.path); err != nil {
+	p := w.canonical()
+	if err := storage.WriteRecovery(w.recoveryDir, &p, w.path); err != nil {
 		w.setStatus("autosave failed: %v", err)
 		return
 	}

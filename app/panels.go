@@ -44,6 +44,7 @@ type controls struct {
 	w            *Window
 	toolButtons  map[tool]*widget.Button
 	kindSelect   *widget.Select
+	cases        *casesPanel
 	properties   *fyne.Container // the properties pane, rebuilt for each kind of item
 	panel        propertiesPanel
 	readout      *readout
@@ -92,6 +93,8 @@ func (w *Window) build() {
 	}
 	strip.Add(widget.NewLabel("Support kind"))
 	strip.Add(c.kindSelect)
+	c.cases = newCasesPanel(w)
+	strip.Add(c.cases.box)
 
 	c.properties = container.NewStack()
 	c.readout = newReadout()
@@ -143,7 +146,8 @@ func (c *controls) actionBar() fyne.CanvasObject {
 		widget.NewButtonWithIcon("Delete", theme.DeleteIcon(), w.deleteSelected),
 		widget.NewButtonWithIcon("Fit view", theme.ZoomFitIcon(), w.draw.fit),
 		container.NewBorder(nil, nil, widget.NewLabel("Snap"), nil, fixedWidth(110, c.grid)),
-		c.unitSelect)
+		c.unitSelect,
+		container.NewBorder(nil, nil, widget.NewLabel("Show"), nil, c.cases.showSelect))
 }
 
 // barOrder is one choice of the bar element, named as fem names its formulation.

@@ -112,8 +112,10 @@ func TestMeshWords(t *testing.T) {
 	}
 }
 
-// The readout is a table: one row per quantity with the finite element
-// and exact values and the unit, under the position in plain decimals.
+// The readout is a table: one row per quantity with the exact value, the
+// finite element one beside it and the unit, under the position in plain
+// decimals; the checks list heads with the mesh, its accuracy and the
+// exact values with the finite element ones beside.
 func TestReadoutTable(t *testing.T) {
 	w, q := newTestWindow(t, demoProject(t))
 	solved(t, w, q)
@@ -133,8 +135,17 @@ func TestReadoutTable(t *testing.T) {
 			t.Errorf("row %d reads %q", i, row)
 		}
 	}
+	if readoutHeadings[columnExact] != "exact" || columnExact > columnFE {
+		t.Errorf("the readout leads with %q, not the exact value", readoutHeadings[1])
+	}
 	d.MouseOut()
 	if r.rows[0][columnFE] != "" {
 		t.Errorf("the readout keeps values after the mouse left: %q", r.rows[0])
+	}
+	summary := w.ui.checks.summaryText()
+	for _, want := range []string{"The mesh is", "Exact values, finite element (FE) beside", "• reaction 1", "• bending moment from"} {
+		if !strings.Contains(summary, want) {
+			t.Errorf("the checks list's summary lacks %q:\n%s", want, summary)
+		}
 	}
 }

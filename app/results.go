@@ -15,7 +15,9 @@ import (
 )
 
 // readout shows every quantity at the mouse x in a table: the quantity,
-// its finite element and exact values in aligned columns, and the unit.
+// its exact value (the headline) and the finite element value beside it in
+// aligned columns, and the unit. Without an exact solution the exact
+// column reads "—" and the line above says the values are FE.
 type readout struct {
 	at    *widget.Label
 	table *widget.Table
@@ -25,13 +27,13 @@ type readout struct {
 // Columns of the readout table.
 const (
 	columnQuantity = iota
-	columnFE
 	columnExact
+	columnFE
 	columnUnit
 	readoutColumns
 )
 
-var readoutHeadings = [readoutColumns]string{"", "FE", "exact", "unit"}
+var readoutHeadings = [readoutColumns]string{"", "exact", "FE", "unit"}
 
 func newReadout() *readout {
 	r := &readout{at: widget.NewLabel("")}
@@ -93,16 +95,18 @@ func (r *readout) pane() fyne.CanvasObject {
 
 // clear shows the quantities with no values and says how to get them.
 func (r *readout) clear(u units.System) {
-	r.at.SetText("Move the mouse over the member to read every result there: finite element (FE) beside exact.")
+	r.at.SetText("Move the mouse over the member to read every result there: exact, with the finite element (FE) value beside it.")
 	r.fill(u, func(fem.Quantity) (string, string) { return "", "" })
 }
 
 // fill sets one row per quantity with values from value, in units u.
-func (r *readout) fill(u units.System, value func(fem.Quantity) (fe, exact string)) {
+func (r *readout) fill(u units.System, value func(fem.Quantity) (exact, fe string)) {
 	r.rows = r.rows[:0]
 	for _, q := range fem.Quantities() {
-		fe, exact := value(q)
-		r.rows = append(r.rows, [readoutColumns]string{q.Info().Label, fe, exact, u.Unit(q.Info().Unit).Symbol})
+		var row [readoutColumns]string
+		row[columnQuantity], row[columnUnit] = q.Info().Label, u.Unit(q.Info().Unit).Symbol
+		row[columnExact], row[columnFE] = value(q)
+		r.rows = append(r.rows, row)
 	}
 	r.table.Refresh()
 }
@@ -123,7 +127,14 @@ func (r *readout) show(w *Window) {
 		return
 	}
 	x := d.hoverX
-	r.at.SetText("At x = " + w.position(x) + " (under the mouse)")
+	at := "At x = " + w.position(x) + " (under the mouse)"
+	if a.Exact == nil {
+		at += ": no exact solution, so only the finite element (FE) values"
+	}
+	r.at.SetText(at)
+	if r.showEnvelope(w, x) {
+		return
+	}
 	fe := a.Solution.At(x, fem.Right)
 	var ex fem.Fields
 	if a.Exact != nil {
@@ -135,7 +146,7 @@ func (r *readout) show(w *Window) {
 		if a.Exact != nil {
 			exact = shortNumber(w.units.ToDisplay(unit, q.Of(&ex)))
 		}
-		return shortNumber(w.units.ToDisplay(unit, q.Of(&fe))), exact
+		return exact, shortNumber(w.units.ToDisplay(unit, q.Of(&fe)))
 	})
 }
 
@@ -210,7 +221,8 @@ func (l *checksList) show() {
 }
 
 // summaryText heads the list: what to do on a blank sketch, otherwise the
-// mesh and balance of the result and the handbook case it matches.
+// mesh and balance of the result, who chose the mesh and its accuracy, the
+// headline values (exact, FE beside) and the handbook case it matches.
 func (l *checksList) summaryText() string {
 	w := l.w
 	if len(w.project.Model.Segments) == 0 {
@@ -221,8 +233,11 @@ func (l *checksList) summaryText() string {
 		return "solving…"
 	}
 	text := a.MeshText(w.units)
+	if h := a.HeadlineText(w.units); h != "" {
+		text += "\n\n" + h
+	}
 	if len(w.checks) > 0 {
-		text += "\nClick a check to read it and see its place on the drawing."
+		text += "\n\nClick a check to read it and see its place on the drawing."
 	}
 	if h := a.HandbookText(w.units); h != "" {
 		text += "\n\n" + h

@@ -38,7 +38,7 @@ func TestConvergenceStudy(t *testing.T) {
 			t.Errorf("the convergence text lacks the L2 error %.3e of %d elements:\n%s", r.L2, r.Elements, text)
 		}
 	}
-	for _, want := range []string{"Fitted rates", "Hermite beams 4 and 2", "Caution"} {
+	for _, want := range []string{"Rates: stress", "last step", "Hermite beams 4 and 2", "Caution"} {
 		if !strings.Contains(text, want) {
 			t.Errorf("the convergence text lacks %q:\n%s", want, text)
 		}

@@ -73,6 +73,10 @@ type Window struct {
 	// note is added to the next status message, which may come from the
 	// caller of the function that set it (the name of an edit, say).
 	note string
+	// editCase is the load case being edited, and show what the analysis
+	// shows of a model with cases (cases.go).
+	editCase int
+	show     analysis.Show
 
 	draw   *drawing
 	ui     *controls
@@ -107,6 +111,7 @@ func newWindow(a fyne.App, p *storage.Project, path string, o options) *Window {
 		p = &storage.Project{View: storage.DefaultView()}
 	}
 	w.project = cloneProject(*p)
+	w.project.Model = liftCase(w.project.Model, 0)
 	w.saved = cloneProject(*p)
 	w.units = report.UnitSystem(w.project.View.Units)
 	w.dimensions = true
@@ -137,20 +142,22 @@ func (w *Window) Show() {
 	w.win.SetTitle(title)
 }
 
-// Model returns the current model (not to be changed by the caller).
-func (w *Window) Model() fem.Model { return w.project.Model }
+// Model returns the current model, every load in its case (not to be
+// changed by the caller).
+func (w *Window) Model() fem.Model { return w.canonicalModel() }
 
 // cloneProject copies p so the copy shares no slices with p.
 func cloneProject(p storage.Project) storage.Project {
 	c := p
 	c.Model = p.Model.Clone()
 	c.LoadOrder = append([]storage.LoadKind(nil), p.LoadOrder...)
+	c.CaseLoadOrder = append([][]storage.LoadKind(nil), p.CaseLoadOrder...)
 	return c
 }
 
 // dirty reports unsaved changes.
 func (w *Window) dirty() bool {
-	return !reflect.DeepEqual(w.project, w.saved)
+	return !reflect.DeepEqual(w.canonical(), w.saved)
 }
 
 func (w *Window) updateTitle() {
@@ -184,17 +191,18 @@ func validate(m *fem.Model) error {
 // model as it was and says why in the status line.
 func (w *Window) apply(name string, change func(m *fem.Model) error) error {
 	cand := w.project.Model.Clone()
+	editing := w.editCase // a change of the cases may edit another
 	if err := change(&cand); err != nil {
 		w.setStatus("%s: %v", name, err)
 		return err
 	}
-	if err := validate(&cand); err != nil {
+	if err := w.validate(&cand); err != nil {
 		w.setStatus("%s not applied: %v", name, err)
 		return err
 	}
 	before := w.project.Model
 	w.setModel(cand)
-	w.hist.push(edit{name: name, before: before, after: cand})
+	w.hist.push(edit{name: name, before: lowerCase(before, editing), after: w.canonicalModel()})
 	w.refitIfLengthChanged(before)
 	w.setStatus("%s", name)
 	return nil
@@ -225,7 +233,8 @@ func (w *Window) setModel(m fem.Model) {
 
 // resubmit sends the current model to the solver again.
 func (w *Window) resubmit() {
-	w.pending = w.solver.submit(w.project.Model, w.adaptNodes, w.checkOptions())
+	w.solver.show = w.show
+	w.pending = w.solver.submit(w.canonicalModel(), w.adaptNodes, w.checkOptions())
 }
 
 // modelChanged brings everything that shows the model up to date.
@@ -233,12 +242,13 @@ func (w *Window) modelChanged() {
 	w.draw.Refresh()
 	w.ui.showProperties()
 	w.ui.showMesh()
+	w.ui.cases.refresh()
 	w.updateTitle()
 }
 
 func (w *Window) undo() {
 	if e, ok := w.hist.undo(); ok {
-		w.setModel(e.before)
+		w.setModel(w.fromHistory(e.before))
 		w.refitIfLengthChanged(e.after)
 		w.setStatus("undid %s", e.name)
 	} else {
@@ -248,7 +258,7 @@ func (w *Window) undo() {
 
 func (w *Window) redo() {
 	if e, ok := w.hist.redo(); ok {
-		w.setModel(e.after)
+		w.setModel(w.fromHistory(e.after))
 		w.refitIfLengthChanged(e.before)
 		w.setStatus("redid %s", e.name)
 	} else {
@@ -478,7 +488,7 @@ func (w *Window) dragTo(g *gesture, ev *fyne.DragEvent) {
 		w.setStatus("%v", err)
 		return
 	}
-	if err := validate(&cand); err != nil {
+	if err := w.validate(&cand); err != nil {
 		w.setStatus("cannot go there: %v", err)
 		return
 	}
@@ -563,7 +573,7 @@ func (w *Window) endDrag(g *gesture) {
 	case gestureMove:
 		name = "move " + describe(g.target)
 	}
-	w.hist.push(edit{name: name, before: g.before, after: w.project.Model})
+	w.hist.push(edit{name: name, before: lowerCase(g.before, w.editCase), after: w.canonicalModel()})
 	w.refitIfLengthChanged(g.before)
 	w.setStatus("%s", name)
 	w.updateTitle()

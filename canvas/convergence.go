@@ -21,40 +21,34 @@ type ConvergenceRow struct {
 	Errors   fem.ErrorNorms
 }
 
+// ConvergenceRates are the rates a convergence study measured for each
+// error measure (NaN for none), for the chart's legend, and the relative
+// error below which an error is round-off and is not plotted.
+type ConvergenceRates struct {
+	Displacement, Energy, Stress float64
+	Floor                        float64
+}
+
 // convergenceSeries are the error measures a chart plots.
 var convergenceSeries = []struct {
 	name   string
 	colour color.NRGBA
 	get    func(fem.ErrorNorms) float64
+	rate   func(ConvergenceRates) float64
 }{
-	{"relative L2 error of displacements", rgb(0x15, 0x65, 0xc0), func(e fem.ErrorNorms) float64 { return e.RelativeL2 }},
-	{"relative energy norm error", rgb(0x7b, 0x1f, 0xa2), func(e fem.ErrorNorms) float64 { return e.RelativeEnergy }},
-	{"largest stress error / largest stress", rgb(0xa8, 0x4a, 0x00), func(e fem.ErrorNorms) float64 { return e.MaxStressRelative }},
-}
-
-// ObservedSlope is the least-squares slope of log(error) against
-// log(elements) over the rows with a positive error: about −2 for an error
-// that falls as h², −1 for h. ok is false with fewer than two such rows.
-func ObservedSlope(elements []int, errs []float64) (slope float64, ok bool) {
-	var sx, sy, sxx, sxy, n float64
-	for i, e := range errs {
-		if e <= 0 || elements[i] <= 0 || math.IsNaN(e) || math.IsInf(e, 0) {
-			continue
-		}
-		x, y := math.Log(float64(elements[i])), math.Log(e)
-		sx, sy, sxx, sxy, n = sx+x, sy+y, sxx+x*x, sxy+x*y, n+1
-	}
-	d := n*sxx - sx*sx
-	if n < 2 || d == 0 {
-		return 0, false
-	}
-	return (n*sxy - sx*sy) / d, true
+	{fem.DisplacementErrorName, rgb(0x15, 0x65, 0xc0), func(e fem.ErrorNorms) float64 { return e.RelativeL2 },
+		func(r ConvergenceRates) float64 { return r.Displacement }},
+	{fem.EnergyErrorName, rgb(0x7b, 0x1f, 0xa2), func(e fem.ErrorNorms) float64 { return e.RelativeEnergy },
+		func(r ConvergenceRates) float64 { return r.Energy }},
+	{fem.StressErrorName + " / largest stress", rgb(0xa8, 0x4a, 0x00), func(e fem.ErrorNorms) float64 { return e.MaxStressRelative },
+		func(r ConvergenceRates) float64 { return r.Stress }},
 }
 
 // WriteConvergenceChart plots the errors against the number of elements on
-// log-log axes, with the observed slope of each measure in the legend, as
-// "png", "svg" or "pdf" (16 × 11 cm).
-func WriteConvergenceChart(w io.Writer, format string, rows []ConvergenceRow) error {
+// log-log axes, leaving out errors at round-off (rates.Floor), with the
+// rate the study measured for each measure in the legend, as "png", "svg"
+// or "pdf" (16 × 11 cm).
+func WriteConvergenceChart(w io.Writer, format string, rows []ConvergenceRow, rates ConvergenceRates) error {
 	if len(rows) < 2 {
 		return fmt.Errorf("canvas: a convergence chart needs at least two meshes, got %d: refine the mesh and solve again", len(rows))
 	}
@@ -67,18 +61,12 @@ func WriteConvergenceChart(w io.Writer, format string, rows []ConvergenceRow) er
 	p.Legend.Left = true // the errors fall to the right, leaving the lower left empty
 	p.Legend.TextStyle.Font.Size = 9
 	p.Add(plotter.NewGrid())
-	elements := make([]int, len(rows))
-	for i, r := range rows {
-		elements[i] = r.Elements
-	}
 	plotted := 0
 	for _, series := range convergenceSeries {
 		var pts plotter.XYs
-		errs := make([]float64, len(rows))
-		for i, r := range rows {
-			errs[i] = series.get(r.Errors)
-			if errs[i] > 0 && r.Elements > 0 {
-				pts = append(pts, plotter.XY{X: float64(r.Elements), Y: errs[i]})
+		for _, r := range rows {
+			if e := series.get(r.Errors); e > rates.Floor && r.Elements > 0 {
+				pts = append(pts, plotter.XY{X: float64(r.Elements), Y: e})
 			}
 		}
 		if len(pts) == 0 {
@@ -92,14 +80,14 @@ func WriteConvergenceChart(w io.Writer, format string, rows []ConvergenceRow) er
 		points.Shape = draw.CircleGlyph{}
 		p.Add(line, points)
 		label := series.name
-		if s, ok := ObservedSlope(elements, errs); ok {
-			label += fmt.Sprintf(": slope %.2f", s)
+		if r := series.rate(rates); !math.IsNaN(r) {
+			label += fmt.Sprintf(": rate %.2f", r)
 		}
 		p.Legend.Add(label, line, points)
 		plotted++
 	}
 	if plotted == 0 {
-		return fmt.Errorf("canvas: every error in the convergence study is zero or not a number: there is nothing to plot on log axes")
+		return fmt.Errorf("canvas: every error in the convergence study is round-off or not a number: there is nothing to plot on log axes")
 	}
 	wt, err := p.WriterTo(16*vg.Centimeter, 11*vg.Centimeter, format)
 	if err != nil {

@@ -43,11 +43,12 @@ func DefaultCSVPoints(elements int) int {
 // not nil) exact, at perElement+1 points in each element, both ends included,
 // in the display units of u (SI when u is the zero System), after a preamble
 // of comment lines that states the unit system and the units of every
-// column. An element's start is read from the right and its end from the
+// column, and then the lines of notes as comment lines (the results with
+// their checks and warnings, say; a table travels without the window). An element's start is read from the right and its end from the
 // left, so jumps show as two rows at one x. The table is streamed: it is
 // formatted in chunks of elements walked in order (fem.Solution.Elements),
 // into a few reused buffers, so memory does not grow with the mesh.
-func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perElement int) error {
+func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perElement int, notes []string) error {
 	if s == nil {
 		return fmt.Errorf("canvas: there are no results to write: solve the model first")
 	}
@@ -64,6 +65,9 @@ func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perEle
 	}
 	out.WriteString(csvUnitsLine(u, qs) + "\n")
 	fmt.Fprintf(out, "# Each element at %d evenly spaced points (%d intervals), both ends included.\n", perElement+1, perElement)
+	for _, line := range notes {
+		out.WriteString(strings.TrimRight("# "+line, " ") + "\n")
+	}
 	header := []string{fmt.Sprintf("x [%s]", u.Unit(units.Position).Symbol)}
 	for _, q := range qs {
 		c := q.Info()

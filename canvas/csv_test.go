@@ -20,7 +20,7 @@ func TestWriteCSVStatesUnits(t *testing.T) {
 	in := solved(t, demoModel(6))
 	for _, u := range []units.System{units.SI, units.USCustomary} {
 		var buf bytes.Buffer
-		if err := WriteCSV(&buf, in.Solution, in.Exact, u, 2); err != nil {
+		if err := WriteCSV(&buf, in.Solution, in.Exact, u, 2, nil); err != nil {
 			t.Fatal(err)
 		}
 		var unitsLine string
@@ -46,7 +46,7 @@ func TestWriteCSVStatesUnits(t *testing.T) {
 func TestWriteCSVRefusesPoints(t *testing.T) {
 	in := solved(t, demoModel(3))
 	for _, n := range []int{0, -1, CSVMaxPoints + 1} {
-		err := WriteCSV(io.Discard, in.Solution, in.Exact, units.SI, n)
+		err := WriteCSV(io.Discard, in.Solution, in.Exact, units.SI, n, nil)
 		if err == nil || !strings.Contains(err.Error(), fmt.Sprint(CSVMaxPoints)) {
 			t.Errorf("%d points: error %v, want one naming the range 1 to %d", n, err, CSVMaxPoints)
 		}
@@ -74,7 +74,7 @@ func TestWriteCSVBoundedMemory(t *testing.T) {
 		var before, after runtime.MemStats
 		runtime.GC()
 		runtime.ReadMemStats(&before)
-		if err := WriteCSV(io.Discard, in.Solution, in.Exact, units.SI, 4); err != nil {
+		if err := WriteCSV(io.Discard, in.Solution, in.Exact, units.SI, 4, nil); err != nil {
 			t.Fatal(err)
 		}
 		runtime.ReadMemStats(&after)
@@ -92,13 +92,13 @@ func TestWriteCSVBoundedMemory(t *testing.T) {
 func BenchmarkWriteCSV(b *testing.B) {
 	in := solved(b, demoModel(100_000))
 	var n countingDiscard
-	if err := WriteCSV(&n, in.Solution, in.Exact, units.SI, 4); err != nil {
+	if err := WriteCSV(&n, in.Solution, in.Exact, units.SI, 4, nil); err != nil {
 		b.Fatal(err)
 	}
 	b.SetBytes(int64(n))
 	b.ReportAllocs()
 	for b.Loop() {
-		if err := WriteCSV(io.Discard, in.Solution, in.Exact, units.SI, 4); err != nil {
+		if err := WriteCSV(io.Discard, in.Solution, in.Exact, units.SI, 4, nil); err != nil {
 			b.Fatal(err)
 		}
 	}

@@ -73,25 +73,40 @@ func (b *builder) diagrams(lay layoutBands) {
 	fe := b.feCurves
 	var ex []*curve
 	var gaps []extreme
-	if b.in.Exact != nil && b.in.Overlays.ExactBand {
+	var envs []envelopeStrip
+	switch {
+	case b.in.Envelope != nil:
+		// The upper curves take the place of the solution's (envelope.go).
+		envs = b.envelopeCurves(qs)
+		fe, ex = make([]*curve, len(envs)), make([]*curve, len(envs))
+		for i := range envs {
+			fe[i], ex[i] = envs[i].hi, envs[i].exactHi
+		}
+		gaps = make([]extreme, len(envs))
+	case b.in.Exact != nil && b.in.Overlays.ExactBand:
 		ex, gaps = exactCurves(b.in.Exact, b.in.Solution, b.in.Model, b.v, qs, b.in.Cache)
 	}
 	for i, st := range lay.strips {
 		var f, e *curve
 		var gap extreme
+		var env *envelopeStrip
 		if fe != nil {
 			f = fe[i]
 		}
 		if ex != nil {
 			e, gap = ex[i], gaps[i]
 		}
-		b.strip(st, f, e, gap)
+		if envs != nil {
+			env = &envs[i]
+		}
+		b.strip(st, f, e, gap, env)
 	}
 }
 
 // strip draws one diagram: axis, FE area and curve, exact curve and the gap
 // between them, extremes and the largest gap labelled.
-func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme) {
+// With an envelope, fe and ex are its upper curves and env has the rest.
+func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme, env *envelopeStrip) {
 	d := st.diagram
 	unit := d.quantity.Info().Unit
 	title := capitalized(quantityWords(d.quantity)) + " [" + b.u.Unit(unit).Symbol + "]"
@@ -99,6 +114,9 @@ func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme) {
 	tr := rect{0, st.top, 16 + textWidth(title, titleSize, true), st.top + 22}
 	b.occupy(tr)
 	legend := d.legend
+	if env != nil {
+		legend = "envelope of the combinations, upper and lower curve; " + legend
+	}
 	if ex != nil {
 		legend += "; thin black: exact, shaded: gap to FE"
 	}
@@ -113,6 +131,9 @@ func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme) {
 		if c != nil && c.n > 0 {
 			lo, hi = min(lo, c.lo.value), max(hi, c.hi.value)
 		}
+	}
+	if env != nil {
+		lo, hi = env.envelopeRange(lo, hi)
 	}
 	// Room above and below the curve for the labels of its extremes.
 	innerTop, innerBottom := st.top+40, st.bottom-20
@@ -158,6 +179,9 @@ func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme) {
 		}
 		b.polygon(gapColour, color.NRGBA{}, 0, band...)
 	}
+	if env != nil {
+		b.envelopeLower(env, d.colour, toY)
+	}
 	if len(fePts) > 0 {
 		b.line(d.colour, 1.8, fePts...)
 	}
@@ -171,7 +195,11 @@ func (b *builder) strip(st stripPlace, fe, ex *curve, gap extreme) {
 	if main == nil || main.n == 0 {
 		main = ex
 	}
-	b.extremes(main, d, toY)
+	if env != nil {
+		b.envelopeExtremes(d.quantity, d, env, toY)
+	} else {
+		b.extremes(main, d, toY)
+	}
 	if ex != nil && fe != nil && gap.value != 0 && math.Abs(gap.value) > 1e-9*max(math.Abs(lo), math.Abs(hi)) {
 		gx := b.sx(gap.x)
 		b.circle(Point{gx, toY(ex.valueNear(gap.x))}, 3, color.NRGBA{}, gapColour, 1.5)
@@ -200,19 +228,23 @@ func (b *builder) extremes(c *curve, d diagram, toY func(float64) float32) {
 		if math.Abs(e.value) <= 1e-9*size || (e == c.lo && math.Abs(c.hi.value-c.lo.value) <= 1e-9*math.Abs(c.hi.value)) {
 			continue
 		}
-		px, py := b.sx(e.x), toY(e.value)
-		b.circle(Point{px, py}, 2.5, d.colour, color.NRGBA{}, 0)
-		// Outside the curve: above a peak drawn upward, below one drawn downward.
-		up := (e.value > 0) != d.downPositive
-		ay, dy := float32(1), float32(-4)
-		if !up {
-			ay, dy = 0, 4
-		}
-		s := fmt.Sprintf("%s at %s", b.format(d.quantity.Info().Unit, e.value), b.format(units.Position, e.x))
-		b.label(s, smallSize, inkColour, false, true,
-			labelSpot{px, py + dy, 0.5, ay}, labelSpot{px + 6, py + dy, 0, ay}, labelSpot{px - 6, py + dy, 1, ay},
-			labelSpot{px + 6, py, 0, 0.5})
+		b.peakLabel(e.x, e.value, fmt.Sprintf("%s at %s", b.format(d.quantity.Info().Unit, e.value), b.format(units.Position, e.x)), d, toY)
 	}
+}
+
+// peakLabel marks the value v at x and labels it s, outside the curve:
+// above a peak drawn upward, below one drawn downward.
+func (b *builder) peakLabel(x, v float64, s string, d diagram, toY func(float64) float32) {
+	px, py := b.sx(x), toY(v)
+	b.circle(Point{px, py}, 2.5, d.colour, color.NRGBA{}, 0)
+	up := (v > 0) != d.downPositive
+	ay, dy := float32(1), float32(-4)
+	if !up {
+		ay, dy = 0, 4
+	}
+	b.label(s, smallSize, inkColour, false, true,
+		labelSpot{px, py + dy, 0.5, ay}, labelSpot{px + 6, py + dy, 0, ay}, labelSpot{px - 6, py + dy, 1, ay},
+		labelSpot{px + 6, py, 0, 0.5})
 }
 
 // stressColour maps a stress to a diverging colour: compression violet,

@@ -19,7 +19,7 @@ func TestWriteCSVMatchesSolution(t *testing.T) {
 	in := solved(t, m)
 	for _, u := range []units.System{units.SI, units.USCustomary} {
 		var buf bytes.Buffer
-		if err := WriteCSV(&buf, in.Solution, in.Exact, u, 3); err != nil {
+		if err := WriteCSV(&buf, in.Solution, in.Exact, u, 3, nil); err != nil {
 			t.Fatal(err)
 		}
 		if !strings.HasPrefix(buf.String(), "# Stave results. "+Caution) {
@@ -107,27 +107,6 @@ func TestSheet(t *testing.T) {
 	}
 }
 
-func TestObservedSlope(t *testing.T) {
-	// An error C·n^p has slope p on log-log axes (definition of the rate).
-	tests := []struct {
-		name string
-		p    float64
-	}{{"second order, deflection of cubic beams in L2 (Strang & Fix, from memory)", -2}, {"first order", -1}, {"fourth order", -4}}
-	for _, tc := range tests {
-		ns := []int{4, 8, 16, 32}
-		errs := make([]float64, len(ns))
-		for i, n := range ns {
-			errs[i] = 0.3 * math.Pow(float64(n), tc.p)
-		}
-		if s, ok := ObservedSlope(ns, errs); !ok || math.Abs(s-tc.p) > 1e-12 {
-			t.Errorf("%s: slope %g (ok %v), want %g", tc.name, s, ok, tc.p)
-		}
-	}
-	if _, ok := ObservedSlope([]int{4, 8}, []float64{0, 1e-3}); ok {
-		t.Error("one positive error gave a slope")
-	}
-}
-
 func TestConvergenceChart(t *testing.T) {
 	m := demoModel(2)
 	e, err := fem.SolveExact(m)
@@ -145,15 +124,21 @@ func TestConvergenceChart(t *testing.T) {
 	}
 	for _, format := range []string{"png", "svg", "pdf"} {
 		var buf bytes.Buffer
-		if err := WriteConvergenceChart(&buf, format, rows); err != nil {
+		if err := WriteConvergenceChart(&buf, format, rows, ConvergenceRates{Displacement: 4, Energy: 2, Stress: 2, Floor: 1e-10}); err != nil {
 			t.Fatalf("%s: %v", format, err)
 		}
 		if buf.Len() < 1000 {
 			t.Errorf("%s chart is only %d bytes", format, buf.Len())
 		}
 	}
-	if err := WriteConvergenceChart(&bytes.Buffer{}, "png", rows[:1]); err == nil {
+	if err := WriteConvergenceChart(&bytes.Buffer{}, "png", rows[:1], ConvergenceRates{}); err == nil {
 		t.Error("a chart of one mesh was accepted")
+	}
+	// Errors at round-off are not plotted: a model the elements solve
+	// exactly has nothing to show.
+	exact := []ConvergenceRow{{Elements: 2, Errors: fem.ErrorNorms{RelativeL2: 1e-16, RelativeEnergy: 2e-16}}, {Elements: 4, Errors: fem.ErrorNorms{RelativeL2: 3e-16}}}
+	if err := WriteConvergenceChart(&bytes.Buffer{}, "png", exact, ConvergenceRates{Floor: 1e-10}); err == nil || !strings.Contains(err.Error(), "round-off") {
+		t.Errorf("a chart of round-off: %v", err)
 	}
 }
 

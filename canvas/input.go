@@ -39,6 +39,9 @@ type Input struct {
 	Marks []Mark
 	// Cache, when not nil, keeps sampled results between builds (see Cache).
 	Cache *Cache
+	// Envelope, when not nil, is drawn in the strips instead of Solution
+	// (envelope.go); the sketch still shows Solution's deformed shape.
+	Envelope *Envelope
 }
 
 // Mark is one marked check.

@@ -328,6 +328,17 @@ func exactCurves(e *fem.Exact, s *fem.Solution, m *fem.Model, v View, qs []quant
 			}
 		}
 	}
+	eachPixel(m, v, add)
+	for _, c := range cs {
+		c.finish()
+	}
+	return cs, gaps
+}
+
+// eachPixel calls add at one x per pixel column of the visible part of m,
+// and on both sides of every key point, in order.
+func eachPixel(m *fem.Model, v View, add func(x float64, side fem.Side)) {
+	l := m.Length()
 	x0, x1 := max(0, v.ToModelX(0)), min(l, v.ToModelX(v.Width))
 	keys := fem.KeyPoints(m)
 	k := lowerBound(keys, x0)
@@ -341,10 +352,6 @@ func exactCurves(e *fem.Exact, s *fem.Solution, m *fem.Model, v View, qs []quant
 		}
 		add(x, fem.Right)
 	}
-	for _, c := range cs {
-		c.finish()
-	}
-	return cs, gaps
 }
 
 // Cache keeps the sampled finite element curves between builds of the same

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"image/color"
 	"io"
+	"math"
 	"strings"
 
 	"stave/fem"
@@ -23,8 +24,14 @@ type SheetNotes struct {
 type SheetInput struct {
 	Input Input
 	Notes SheetNotes
-	// Checks are the failed or warned checks, one sentence each.
+	// Mesh says who chose the mesh and the accuracy it reaches, one sentence.
+	Mesh string
+	// Checks are the warnings (failed, cautioned and noted findings), one
+	// sentence each.
 	Checks []string
+	// Cases are the load cases, combinations with their factors and the
+	// envelope's governing values of a model with cases, one line each.
+	Cases []string
 }
 
 // A4 portrait in points; the sheet is laid out as a scene of this size.
@@ -59,6 +66,13 @@ func (sh *sheet) row(cols []string, xs []float32, size float32, c color.NRGBA, b
 		sh.b.text(s, xs[i], sh.y, size, 0, 0, c, bold)
 	}
 	sh.y += TextHeight(size) + 1
+}
+
+// para writes text wrapped to the page width in small type.
+func (sh *sheet) para(text string, c color.NRGBA) {
+	for _, ln := range wrap(text, sheetSmall, false, a4Width-2*sheetEdge) {
+		sh.row([]string{ln}, []float32{sheetEdge}, sheetSmall, c, false)
+	}
 }
 
 func (sh *sheet) heading(s string) {
@@ -110,21 +124,15 @@ func buildSheet(in SheetInput) *Scene {
 	sh.y += dh + 4
 
 	if in.Input.Solution != nil {
-		sh.resultsTable(fem.Summarize(in.Input.Solution, in.Input.Exact), u)
+		sh.resultsTable(fem.Summarize(in.Input.Solution, in.Input.Exact), in.Mesh, u)
 	} else if in.Input.Problem != "" {
 		sh.heading("Results")
 		for _, ln := range wrap(in.Input.Problem, sheetText, true, right-sheetEdge) {
 			sh.row([]string{ln}, []float32{sheetEdge}, sheetText, problemColour, true)
 		}
 	}
-	if len(in.Checks) > 0 {
-		sh.heading("Failed or warned checks")
-		for _, c := range in.Checks {
-			for _, ln := range wrap("• "+c, sheetText, false, right-sheetEdge) {
-				sh.row([]string{ln}, []float32{sheetEdge}, sheetText, problemColour, false)
-			}
-		}
-	}
+	sh.list("Load cases, combinations and envelope", in.Cases, inkColour)
+	sh.list("Warnings", in.Checks, problemColour)
 	// The caution sits at the foot of the page whatever the content above.
 	foot := float32(a4Height - sheetEdge - 2*TextHeight(sheetText))
 	b.line(inkColour, 0.75, Point{sheetEdge, foot - 4}, Point{right, foot - 4})
@@ -157,17 +165,35 @@ func (sh *sheet) reserve(in SheetInput) float32 {
 	line := TextHeight(sheetSmall) + 1
 	h := float32(0)
 	if s := in.Input.Solution; s != nil {
-		h += 2*line*float32(4+len(s.Reactions)+len(s.Warnings)) + 12*line + 30
+		// The note, two headers, nine extremes, the inside supports'
+		// header, equilibrium, two lines on the mesh and one on the error.
+		h += line*float32(18+len(s.Reactions)+len(s.Model.Supports)) + 9 + 30
 	} else {
 		h += 3*line + 25
 	}
-	if len(in.Checks) > 0 {
-		h += 25
-		for _, c := range in.Checks {
-			h += line * float32(len(wrap("• "+c, sheetText, false, a4Width-2*sheetEdge)))
+	for _, list := range [][]string{in.Checks, in.Cases} {
+		if len(list) > 0 {
+			h += 25
+			for _, c := range list {
+				h += line * float32(len(wrap("• "+c, sheetText, false, a4Width-2*sheetEdge)))
+			}
 		}
 	}
 	return h
+}
+
+// list writes a heading and its lines as bullets in colour c; nothing
+// without lines.
+func (sh *sheet) list(title string, lines []string, c color.NRGBA) {
+	if len(lines) == 0 {
+		return
+	}
+	sh.heading(title)
+	for _, l := range lines {
+		for _, ln := range wrap("• "+l, sheetText, false, a4Width-2*sheetEdge) {
+			sh.row([]string{ln}, []float32{sheetEdge}, sheetText, c, false)
+		}
+	}
 }
 
 // sheetRows caps each input table so the page holds.
@@ -228,36 +254,90 @@ func (sh *sheet) modelTable(m *fem.Model, u units.System) {
 	}
 }
 
-func (sh *sheet) resultsTable(sum fem.Summary, u units.System) {
+// resultsTable lists the reactions, extremes and actions at the supports
+// inside the member: the exact solution's beside the finite element ones
+// when there is one, else the finite element ones labelled FE; then
+// equilibrium, the mesh (mesh: who chose it and its accuracy) and the
+// error against the exact solution.
+func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 	f := u.Format
 	sh.heading("Results")
-	xs := []float32{sheetEdge, sheetEdge + 90, sheetEdge + 180, sheetEdge + 300, sheetEdge + 400}
-	sh.row([]string{"reaction", "at", "axial", "transverse", "moment"}, xs, sheetSmall, faintColour, true)
+	note := "Values are the exact solution of the model; FE is the finite element answer on this mesh."
+	if !sum.Exact {
+		note = "There is no exact solution of this model: every value is the finite element (FE) one."
+	}
+	sh.para(note, inkColour)
+	head := "exact"
+	if !sum.Exact {
+		head = "FE"
+	}
+	// value is the headline value with the finite element one beside it.
+	value := func(k units.Kind, v, fe float64) string {
+		if !sum.Exact {
+			return f(k, fe)
+		}
+		return f(k, v) + " (FE " + f(k, fe) + ")"
+	}
+	xs := []float32{sheetEdge, sheetEdge + 95, sheetEdge + 150, sheetEdge + 280, sheetEdge + 410}
+	sh.row([]string{"reaction", "at", "axial, " + head, "transverse, " + head, "moment, " + head}, xs, sheetSmall, faintColour, true)
 	for _, r := range sum.Reactions {
-		sh.row([]string{fmt.Sprintf("support %d (%s)", r.Support, r.Kind), f(units.Position, r.X),
-			f(units.Force, r.Axial), f(units.Force, r.Transverse), f(units.Moment, r.Moment)}, xs, sheetSmall, inkColour, false)
+		cols := []string{fmt.Sprintf("support %d (%s)", r.Support, r.Kind), f(units.Position, r.X)}
+		for _, c := range []struct {
+			held  bool
+			kind  units.Kind
+			v, fe float64
+		}{
+			{r.Holds[fem.Axial], units.Force, r.Axial, r.FE.Axial},
+			{r.Holds[fem.Transverse], units.Force, r.Transverse, r.FE.Transverse},
+			{r.Holds[fem.Rotation], units.Moment, r.Moment, r.FE.Moment},
+		} {
+			text := "—"
+			if c.held {
+				text = value(c.kind, c.v, c.fe)
+			}
+			cols = append(cols, text)
+		}
+		sh.row(cols, xs, sheetSmall, inkColour, false)
 	}
 	sh.y += 3
-	xs = []float32{sheetEdge, sheetEdge + 110, sheetEdge + 200, sheetEdge + 300, sheetEdge + 390}
-	sh.row([]string{"quantity", "largest", "at", "smallest", "at"}, xs, sheetSmall, faintColour, true)
+	xs = []float32{sheetEdge, sheetEdge + 95, sheetEdge + 160, sheetEdge + 210, sheetEdge + 275, sheetEdge + 340, sheetEdge + 390, sheetEdge + 455}
+	if sum.Exact {
+		sh.row([]string{"quantity", "largest", "at", "FE", "smallest", "at", "FE", "FE accuracy"}, xs, sheetSmall, faintColour, true)
+	} else {
+		sh.row([]string{"quantity", "largest FE", "at", "", "smallest FE", "at"}, xs, sheetSmall, faintColour, true)
+	}
 	for _, e := range sum.Extremes {
 		q := e.Quantity.Info().Unit
-		sh.row([]string{quantityWords(e.Quantity), f(q, e.Max), f(units.Position, e.XMax), f(q, e.Min), f(units.Position, e.XMin)},
+		if !sum.Exact {
+			sh.row([]string{quantityWords(e.Quantity), f(q, e.FEMax), f(units.Position, e.FEXMax), "", f(q, e.FEMin), f(units.Position, e.FEXMin)},
+				xs, sheetSmall, inkColour, false)
+			continue
+		}
+		sh.row([]string{quantityWords(e.Quantity), f(q, e.Max), f(units.Position, e.XMax), f(q, e.FEMax),
+			f(q, e.Min), f(units.Position, e.XMin), f(q, e.FEMin), fmt.Sprintf("%.3g %%", 100*e.Accuracy)},
 			xs, sheetSmall, inkColour, false)
+	}
+	if len(sum.Supports) > 0 {
+		sh.y += 3
+		xs = []float32{sheetEdge, sheetEdge + 95, sheetEdge + 150, sheetEdge + 280, sheetEdge + 410}
+		sh.row([]string{"inside support", "at", "V left, " + head, "V right, " + head, "M, " + head}, xs, sheetSmall, faintColour, true)
+		for _, a := range sum.Supports {
+			moment := value(units.Moment, a.Moment[0], a.FEMoment[0])
+			if math.Abs(a.Moment[1]-a.Moment[0]) > 1e-9*math.Max(math.Abs(a.Moment[0]), math.Abs(a.Moment[1])) {
+				moment = f(units.Moment, a.Moment[0]) + " / " + value(units.Moment, a.Moment[1], a.FEMoment[1])
+			}
+			sh.row([]string{fmt.Sprintf("support %d (%s)", a.Support, a.Kind), f(units.Position, a.X),
+				value(units.Force, a.Shear[0], a.FEShear[0]), value(units.Force, a.Shear[1], a.FEShear[1]), moment}, xs, sheetSmall, inkColour, false)
+		}
 	}
 	sh.y += 3
 	eq := sum.Equilibrium
-	sh.row([]string{fmt.Sprintf("Equilibrium residual: %s, %s, %s (relative %.1e)", f(units.Force, eq.Residual.Axial),
-		f(units.Force, eq.Residual.Transverse), f(units.Moment, eq.Residual.Moment), eq.Relative)},
-		[]float32{sheetEdge}, sheetSmall, inkColour, false)
-	sh.row([]string{fmt.Sprintf("Mesh: %d elements, %d nodes, bar order %d, condition estimate %.2e",
-		sum.Mesh.Elements, sum.Mesh.Nodes, sum.Mesh.BarOrder, sum.Mesh.Condition)}, []float32{sheetEdge}, sheetSmall, inkColour, false)
+	sh.para(fmt.Sprintf("Equilibrium residual (%s reactions): %s, %s, %s (relative %.1e; FE %.1e)", head, f(units.Force, eq.Residual.Axial),
+		f(units.Force, eq.Residual.Transverse), f(units.Moment, eq.Residual.Moment), eq.Relative, sum.FEEquilibrium.Relative), inkColour)
+	sh.para(fmt.Sprintf("Mesh: %d elements, %d nodes, bar order %d, condition estimate %.2e. %s",
+		sum.Mesh.Elements, sum.Mesh.Nodes, sum.Mesh.BarOrder, sum.Mesh.Condition, mesh), inkColour)
 	if e := sum.ExactError; e != nil {
-		sh.row([]string{fmt.Sprintf("Against the exact solution: deflection %s, stress %s (%.2g%%), relative energy norm %.2e",
-			f(units.Deflection, e.MaxDeflection), f(units.Stress, e.MaxStress), 100*e.MaxStressRelative, e.RelativeEnergy)},
-			[]float32{sheetEdge}, sheetSmall, inkColour, false)
-	}
-	for _, w := range sum.Warnings {
-		sh.row([]string{"Warning: " + w}, []float32{sheetEdge}, sheetSmall, problemColour, false)
+		sh.para(fmt.Sprintf("FE against exact: %s %.2g %% of the largest stress, %s %.2g %%, %s %.2g %%",
+			fem.StressErrorName, 100*e.MaxStressRelative, fem.DisplacementErrorName, 100*e.RelativeL2, fem.EnergyErrorName, 100*e.RelativeEnergy), inkColour)
 	}
 }

@@ -204,13 +204,14 @@ const shortStretch = 1e-4
 func elementTable(m *Model, mesh Mesh, fine []float64, l *Loads) ([]elementData, [][3]float64) {
 	els := make([]elementData, len(mesh.Elements))
 	nodal := make([][3]float64, len(mesh.X))
-	sections := sectionTable(m, l.TemperatureChange)
+	sections := sectionTable(m, l)
 	for i, e := range mesh.Elements {
 		els[i] = elementData{start: e.Start, length: e.End - e.Start, sectionData: sections[e.Segment]}
 		d := &els[i]
 		d.axialLoad, d.transverseLoad, d.breaks = l.loadsIn(e.Start, e.End)
 	}
 	markReleases(m, mesh.X, els)
+	groundUnder(m, els)
 	for _, p := range l.Points {
 		p.X = fine[nearest(fine, p.X)]
 		node := nearest(mesh.X, p.X)

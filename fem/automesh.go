@@ -35,17 +35,19 @@ type fieldScales [quantityCount]float64
 // exactScales samples e at both ends and seven inner points of every
 // stretch: its fields are polynomials of degree five at most there, so the
 // largest magnitude found is within a few per cent of the true one, which
-// is all a scale for the mesh rule needs.
+// is all a scale for the mesh rule needs. On a foundation the fields wave
+// and decay over 2π/β; the samples are eight times denser per unit of λ.
 func exactScales(e *Exact) fieldScales {
 	var s fieldScales
 	for j := range e.stretches {
 		st := &e.stretches[j]
-		for k := 0; k <= 8; k++ {
+		n := 8 * (1 + int(math.Ceil(min(max(st.bar.ground.scale, st.beam.ground.scale), 1e4))))
+		for k := 0; k <= n; k++ {
 			side := Right
-			if k == 8 {
+			if k == n {
 				side = Left
 			}
-			f := e.At(st.start+st.length*float64(k)/8, side)
+			f := e.At(st.start+st.length*float64(k)/float64(n), side)
 			for q := range s {
 				s[q] = math.Max(s[q], math.Abs(Quantity(q).Of(&f)))
 			}
@@ -82,11 +84,12 @@ func (p *Member) automaticCounts() ([]int, string) {
 	for k, e := range exacts {
 		scale := exactScales(e)
 		l := &p.loadSets[k]
-		sections := sectionTable(&p.model, l.TemperatureChange)
+		sections := sectionTable(&p.model, l)
 		for j := range n {
 			a, b := p.keys[j], p.keys[j+1]
 			d := elementData{start: a, length: b - a, sectionData: sections[p.model.SegmentAt(0.5*(a+b))],
 				axialLoad: l.Axial[j], transverseLoad: l.Transverse[j]}
+			d.modulus, d.axialModulus = p.model.foundationAt(0.5 * (a + b))
 			// Half the accuracy: the bounds are estimates.
 			tol := MeshAccuracy / 2
 			h := min(bar.elementLength(&d, &scale, tol), beam.elementLength(&d, &scale, tol))

@@ -61,6 +61,19 @@ func TestDefaultMeshRule(t *testing.T) {
 		if trial%2 == 0 {
 			m.Mesh.BarOrder = QuadraticBar
 		}
+		if trial%3 == 1 {
+			// A foundation under a random stretch, β·L from about 0.3 to 30.
+			L := m.Length()
+			a, b := L*rnd.Float64()/2, L*(0.5+rnd.Float64()/2)
+			seg := m.Segments[0]
+			ei := seg.Material.Elastic * seg.Section.SecondMoment
+			beta := math.Pow(10, -0.5+2*rnd.Float64()) / L
+			f := Foundation{Start: a, End: b, Modulus: 4 * ei * math.Pow(beta, 4)}
+			if m.Mesh.BarOrder != QuadraticBar {
+				f.AxialModulus = seg.Material.Elastic * seg.Section.Area * beta * beta
+			}
+			m.Foundations = []Foundation{f}
+		}
 		t.Run(fmt.Sprintf("trial %d", trial), func(t *testing.T) {
 			s, err := Solve(m)
 			if err != nil {

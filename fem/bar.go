@@ -60,14 +60,17 @@ func barShape(order ElementOrder, xi, h float64) (n, dn [3]float64) {
 
 // barStiffness is the closed-form bar stiffness: EA/h·[1 −1; −1 1] for the
 // linear element, EA/(3h)·[7 −8 1; −8 16 −8; 1 −8 7] for the quadratic one
-// (Hughes, The Finite Element Method, ch. 1 and 3, from memory).
+// (Hughes, The Finite Element Method, ch. 1 and 3, from memory), the
+// linear one with the foundation's under the element (addBarGround).
 func (d *elementData) barStiffness(order ElementOrder) localMatrix {
 	c := d.axialRigidity / d.length
 	if order == QuadraticBar {
 		c /= 3
 		return localMatrix{{7 * c, -8 * c, c}, {-8 * c, 16 * c, -8 * c}, {c, -8 * c, 7 * c}}
 	}
-	return localMatrix{{c, -c}, {-c, c}}
+	k := localMatrix{{c, -c}, {-c, c}}
+	d.addBarGround(&k)
+	return k
 }
 
 // barLoads is the consistent nodal load vector ∫N·p dx plus the thermal
@@ -137,7 +140,9 @@ func (d *elementData) linearBarLoadsOn(x0, x1 float64) [2]float64 {
 // The axial stress follows N/A; the combined stress takes half the
 // tolerance, the beam's error taking the other half.
 func (f barFormulation) elementLength(d *elementData, s *fieldScales, tol float64) float64 {
-	p := max(math.Abs(d.axialLoad[0]), math.Abs(d.axialLoad[1])) // the default mesh sizes stretches of linear load
+	// The default mesh sizes stretches of linear load; on a foundation the
+	// bar feels p − kₐ·u, bounded by |p| + kₐ·|u|max.
+	p := max(math.Abs(d.axialLoad[0]), math.Abs(d.axialLoad[1])) + d.axialModulus*s[QAxialDisplacement]
 	slope := math.Abs(d.axialLoad[1]-d.axialLoad[0]) / d.length
 	ea, area := d.axialRigidity, d.area
 	if f.order == QuadraticBar {

@@ -117,48 +117,97 @@ func hermiteValues(xi, h float64) [4]float64 {
 	return [4]float64{1 - 3*x2 + 2*x3, h * (xi - 2*x2 + x3), 3*x2 - 2*x3, h * (x3 - x2)}
 }
 
-// beamStiffness is the closed-form Hermite beam stiffness for (w1, θ1, w2, θ2)
-// (Hughes, The Finite Element Method; Strang & Fix, ch. 1; from memory).
+// beamStiffness is the closed-form beam stiffness for (w1, θ1, w2, θ2), with
+// the foundation's under the element (addBeamGround): the
+// Hermite element (Hughes, The Finite Element Method; Strang & Fix, ch. 1;
+// from memory), or with shear deformation the interdependent
+// interpolation element, EI/((1+φ)h³)·[12, 6h, −12, 6h; 6h, (4+φ)h², −6h,
+// (2−φ)h²; …] with φ = 12EI/(G·As·h²) (Przemieniecki, Theory of Matrix
+// Structural Analysis, from memory), which is exact for the Timoshenko beam
+// and does not lock however short the element.
 func (d *elementData) beamStiffness() localMatrix {
 	h := d.length
-	c := d.flexuralRigidity / (h * h * h)
-	return localMatrix{
+	phi := d.phi(h)
+	c := d.flexuralRigidity / ((1 + phi) * h * h * h)
+	k := localMatrix{
 		{12 * c, 6 * h * c, -12 * c, 6 * h * c},
-		{6 * h * c, 4 * h * h * c, -6 * h * c, 2 * h * h * c},
+		{6 * h * c, (4 + phi) * h * h * c, -6 * h * c, (2 - phi) * h * h * c},
 		{-12 * c, -6 * h * c, 12 * c, -6 * h * c},
-		{6 * h * c, 2 * h * h * c, -6 * h * c, 4 * h * h * c},
+		{6 * h * c, (2 - phi) * h * h * c, -6 * h * c, (4 + phi) * h * h * c},
 	}
+	d.addBeamGround(&k)
+	return k
+}
+
+// phi is the shear parameter φ = 12·EI/(G·As·h²) of an element of length h
+// of this stretch: 0 for an Euler–Bernoulli beam.
+func (d *elementData) phi(h float64) float64 { return 12 * d.shear / (h * h) }
+
+// beamShape returns the shape functions of the deflection and of the
+// rotation for (w1, θ1, w2, θ2) at ξ ∈ [0, 1] for an element of length h
+// with shear parameter φ: the interdependent interpolation element's
+// cubic w and quadratic θ, whose difference w′ − θ is the constant shear
+// strain (Reddy, An Introduction to the Finite Element Method, from
+// memory). With φ = 0 they are the Hermite cubics and their derivatives.
+func beamShape(xi, h, phi float64) (w, theta [4]float64) {
+	if phi == 0 {
+		n, d1, _, _ := hermite(xi, h)
+		return n, d1
+	}
+	mu := 1 / (1 + phi)
+	x2, x3 := xi*xi, xi*xi*xi
+	w = [4]float64{
+		mu * (1 + phi - phi*xi - 3*x2 + 2*x3),
+		mu * h * (xi*(1+phi/2) - x2*(2+phi/2) + x3),
+		mu * (phi*xi + 3*x2 - 2*x3),
+		mu * h * (-xi*phi/2 - x2*(1-phi/2) + x3),
+	}
+	theta = [4]float64{
+		mu * 6 / h * (x2 - xi),
+		mu * (1 + phi - (4+phi)*xi + 3*x2),
+		-mu * 6 / h * (x2 - xi),
+		mu * (3*x2 - (2-phi)*xi),
+	}
+	return w, theta
 }
 
 // beamLoads is the consistent nodal load vector ∫N·q dx, plus N·P + N'·C
-// for the point loads inside (the work of a moment C is C·w').
+// for the point loads inside (the work of a moment C is C·w') and the
+// thermal moments of a temperature difference through the depth.
 func (d *elementData) beamLoads() localVector {
 	f := d.hermiteLoadsOn(d.start, d.start+d.length)
+	// The free thermal curvature κ does the work ∫N''·EI·κ dx =
+	// EI·κ·(N'(end) − N'(start)): ∓EI·κ on the rotations, nothing on w.
+	thermal := d.flexuralRigidity * d.thermalCurvature
+	f[1] -= thermal
+	f[3] += thermal
 	for _, p := range d.points {
-		n, d1, _, _ := hermite((p.X-d.start)/d.length, d.length)
+		n, rot := beamShape((p.X-d.start)/d.length, d.length, d.phi(d.length))
 		for a := range f {
-			f[a] += n[a]*p.Transverse + d1[a]*p.Moment
+			f[a] += n[a]*p.Transverse + rot[a]*p.Moment
 		}
 	}
 	return f
 }
 
-// hermiteLoadsOn is ∫N·q dx over [x0, x1] within d for the Hermite shape
-// functions of an element from x0 to x1 under d's line load: hermiteLoads
-// when the load is linear there, else the sum over its pieces by the
-// 3-point rule (exact for a cubic times a linear load).
+// hermiteLoadsOn is ∫N·q dx over [x0, x1] within d for the deflection's
+// shape functions (beamShape) of an element from x0 to x1 under d's line
+// load: hermiteLoads for an Euler–Bernoulli element whose load is linear
+// there, else the sum over its pieces by the 3-point rule (exact for a cubic
+// times a linear load).
 func (d *elementData) hermiteLoadsOn(x0, x1 float64) localVector {
 	h := x1 - x0
 	if x0 == d.start && x1 == d.start+d.length {
 		h = d.length // the element itself: its own length, not a difference
 	}
-	if d.smooth(x0, x1) {
+	phi := d.phi(h)
+	if phi == 0 && d.smooth(x0, x1) {
 		return hermiteLoads(h, d.transverseAt(x0, Right), d.transverseAt(x1, Left))
 	}
 	var f localVector
 	d.pieces(x0, x1, func(pc loadPiece) {
 		for _, g := range gauss3 {
-			n := hermiteValues((pc.start+g.xi*pc.length-x0)/h, h)
+			n, _ := beamShape((pc.start+g.xi*pc.length-x0)/h, h, phi)
 			q := pc.q0 + (pc.q1-pc.q0)*g.xi
 			for a := range f {
 				f[a] += g.w * pc.length * n[a] * q
@@ -188,9 +237,10 @@ func hermiteLoads(h, q0, q1 float64) localVector {
 // M is linear, off by at most |q|·h²/8; w is the cubic Hermite interpolant,
 // off by at most |w⁗|·h⁴/384 = |q|·h⁴/(384·EI), and θ by at most
 // |q|·h³/(24·EI). The bending stress follows M·c/I; the combined stress
-// takes half the tolerance, the bar's error taking the other half.
+// takes half the tolerance, the bar's error taking the other half. On a
+// foundation the load the beam feels is q − k·w, bounded by |q| + k·|w|max.
 func (hermiteBeam) elementLength(d *elementData, s *fieldScales, tol float64) float64 {
-	q := max(math.Abs(d.transverseLoad[0]), math.Abs(d.transverseLoad[1]))
+	q := max(math.Abs(d.transverseLoad[0]), math.Abs(d.transverseLoad[1])) + d.modulus*s[QDeflection]
 	ei, section := d.flexuralRigidity, d.fibre/d.secondMoment
 	return min(
 		sizeLimit(q/2, 1, tol*s[QShearForce]),

@@ -27,6 +27,9 @@ type LoadCase struct {
 	// Settlements says the supports' settlements (Support.Settlement) act
 	// in this case.
 	Settlements bool
+	// ThermalGradient says the segments' temperature differences through
+	// the depth (Segment.TemperatureDifference) act in this case.
+	ThermalGradient bool
 	// BySpan marks a load placed span by span (pattern loading): the
 	// envelope takes, at every point, the arrangement of loaded spans that
 	// is worst there (SpanLoads).
@@ -108,6 +111,11 @@ func (m *Model) LoadSet(i int) Model {
 			c.Supports[k].Settlement = [3]float64{}
 		}
 	}
+	if !lc.ThermalGradient {
+		for k := range c.Segments {
+			c.Segments[k].TemperatureDifference = 0
+		}
+	}
 	return c
 }
 
@@ -175,6 +183,12 @@ func CombineSolutions(sols []*Solution, factors []float64) (*Solution, error) {
 	for i := range out.Reactions {
 		out.Reactions[i].Force = [3]float64{}
 	}
+	if first.Foundations != nil {
+		out.Foundations = make([]FoundationReaction, len(first.Foundations))
+		for i, r := range first.Foundations {
+			out.Foundations[i] = FoundationReaction{Foundation: r.Foundation, Start: r.Start, End: r.End}
+		}
+	}
 	for k, s := range sols {
 		if len(s.Displacement) != len(out.Displacement) || len(s.Reactions) != len(out.Reactions) || &s.Mesh.X[0] != &first.Mesh.X[0] {
 			return nil, fmt.Errorf("fem: solution %d was not found on the same structure as the first: solve every load set on one Structure", k+1)
@@ -204,6 +218,12 @@ func CombineSolutions(sols []*Solution, factors []float64) (*Solution, error) {
 				out.Reactions[i].Force[j] += f * r.Force[j]
 			}
 		}
+		for i, r := range s.Foundations {
+			o := &out.Foundations[i]
+			o.Force[0] += f * r.Force[0]
+			o.Force[1] += f * r.Force[1]
+			o.Moment += f * r.Moment
+		}
 		for e, r := range s.releasedStart {
 			if out.releasedStart == nil {
 				out.releasedStart = map[int]float64{}
@@ -218,9 +238,10 @@ func CombineSolutions(sols []*Solution, factors []float64) (*Solution, error) {
 	// The thermal strain is a load: combine it too.
 	out.sections = slices.Clone(first.sections)
 	for i := range out.sections {
-		out.sections[i].thermalStrain = 0
+		out.sections[i].thermalStrain, out.sections[i].thermalCurvature = 0, 0
 		for k, s := range sols {
 			out.sections[i].thermalStrain += factors[k] * s.sections[i].thermalStrain
+			out.sections[i].thermalCurvature += factors[k] * s.sections[i].thermalCurvature
 		}
 	}
 	for j := range 3 {
@@ -231,18 +252,20 @@ func CombineSolutions(sols []*Solution, factors []float64) (*Solution, error) {
 
 // CombineExact is Σ factors[i]·exacts[i] for exact solutions of one
 // ExactStructure: every stretch's constants, particular parts, thermal
-// offsets and the reactions combine linearly.
+// offsets, line loads (for the shear terms) and the reactions combine
+// linearly.
 func CombineExact(exacts []*Exact, factors []float64) (*Exact, error) {
 	if len(exacts) == 0 || len(exacts) != len(factors) {
 		return nil, fmt.Errorf("fem: %d exact solutions for %d factors: give one factor per solution", len(exacts), len(factors))
 	}
 	first := exacts[0]
-	out := &Exact{keys: first.keys, stretches: make([]exactStretch, len(first.stretches)), reactions: make([]Reaction, len(first.reactions))}
+	out := &Exact{model: first.model, keys: first.keys, stretches: make([]exactStretch, len(first.stretches)), reactions: make([]Reaction, len(first.reactions))}
 	for j, s := range first.stretches {
-		out.stretches[j] = s
-		out.stretches[j].thermalStrain = 0
-		out.stretches[j].bar = stretchSolution{stiffness: s.bar.stiffness, order: s.bar.order, coeff: make([]float64, len(s.bar.coeff))}
-		out.stretches[j].beam = stretchSolution{stiffness: s.beam.stiffness, order: s.beam.order, coeff: make([]float64, len(s.beam.coeff))}
+		o := &out.stretches[j]
+		*o = s
+		o.thermalStrain, o.load, o.axialLoad = 0, [2]float64{}, [2]float64{}
+		o.bar.offset, o.bar.coeff = 0, make([]float64, len(s.bar.coeff))
+		o.beam.offset, o.beam.coeff = 0, make([]float64, len(s.beam.coeff))
 	}
 	for i, r := range first.reactions {
 		out.reactions[i] = Reaction{Support: r.Support, X: r.X}
@@ -255,7 +278,12 @@ func CombineExact(exacts []*Exact, factors []float64) (*Exact, error) {
 		for j := range e.stretches {
 			s, o := &e.stretches[j], &out.stretches[j]
 			o.thermalStrain += f * s.thermalStrain
+			for i := range 2 {
+				o.load[i] += f * s.load[i]
+				o.axialLoad[i] += f * s.axialLoad[i]
+			}
 			o.bar.offset += f * s.bar.offset
+			o.beam.offset += f * s.beam.offset
 			for c := range s.bar.coeff {
 				o.bar.coeff[c] += f * s.bar.coeff[c]
 			}
@@ -314,6 +342,9 @@ func (m *Model) SpanLoads(c int) []Model {
 	base.Gravity, base.TemperatureChange = [2]float64{}, 0
 	for k := range base.Supports {
 		base.Supports[k].Settlement = [3]float64{}
+	}
+	for k := range base.Segments {
+		base.Segments[k].TemperatureDifference = 0
 	}
 	for k, sp := range spans {
 		share := base.Clone()

@@ -84,14 +84,7 @@ func TestTwoSpanCases(t *testing.T) {
 func TestCombinationIsSuperposition(t *testing.T) {
 	rnd := rand.New(rand.NewPCG(31, 32))
 	for trial := range 20 {
-		base := randomKeyPointModel(rnd)
-		m := base.Clone()
-		m.PointLoads, m.DistributedLoad, m.TemperatureChange = nil, nil, 0
-		half := len(base.PointLoads) / 2
-		m.Cases = []LoadCase{
-			{Name: "dead", PointLoads: base.PointLoads[:half], SelfWeight: true, Settlements: true},
-			{Name: "imposed", PointLoads: base.PointLoads[half:], DistributedLoad: base.DistributedLoad, TemperatureChange: base.TemperatureChange},
-		}
+		m := randomTwoCases(rnd)
 		factors := []float64{1.35, 1.5}
 		combined := m.LoadSet(0)
 		scaleLoads(&combined, factors[0])
@@ -111,22 +104,7 @@ func TestCombinationIsSuperposition(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		sols, err := p.SolveLoadSets(p.Mesh())
-		if err != nil {
-			t.Fatal(err)
-		}
-		exacts, err := p.ExactLoadSets()
-		if err != nil {
-			t.Fatal(err)
-		}
-		fe, err := CombineSolutions(sols, factors)
-		if err != nil {
-			t.Fatal(err)
-		}
-		ex, err := CombineExact(exacts, factors)
-		if err != nil {
-			t.Fatal(err)
-		}
+		fe, ex := combineCases(t, p, factors)
 		refEx, err := SolveExact(&combined)
 		if err != nil {
 			t.Fatal(err)
@@ -157,6 +135,44 @@ func TestCombinationIsSuperposition(t *testing.T) {
 			}
 		}
 	}
+}
+
+// combineCases solves every load set of p, FE and exact, and combines
+// them with factors.
+func combineCases(t *testing.T, p *Member, factors []float64) (*Solution, *Exact) {
+	t.Helper()
+	sols, err := p.SolveLoadSets(p.Mesh())
+	if err != nil {
+		t.Fatal(err)
+	}
+	exacts, err := p.ExactLoadSets()
+	if err != nil {
+		t.Fatal(err)
+	}
+	fe, err := CombineSolutions(sols, factors)
+	if err != nil {
+		t.Fatal(err)
+	}
+	ex, err := CombineExact(exacts, factors)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return fe, ex
+}
+
+// randomTwoCases is a random continuous beam with its loads in two cases:
+// "dead", half its point loads with its self-weight and settlements, and
+// "imposed", the rest.
+func randomTwoCases(rnd *rand.Rand) Model {
+	base := randomKeyPointModel(rnd)
+	m := base.Clone()
+	m.PointLoads, m.DistributedLoad, m.TemperatureChange = nil, nil, 0
+	half := len(base.PointLoads) / 2
+	m.Cases = []LoadCase{
+		{Name: "dead", PointLoads: base.PointLoads[:half], SelfWeight: true, Settlements: true},
+		{Name: "imposed", PointLoads: base.PointLoads[half:], DistributedLoad: base.DistributedLoad, TemperatureChange: base.TemperatureChange},
+	}
+	return m
 }
 
 // scaleLoads multiplies the point and distributed loads of m by f.

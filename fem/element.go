@@ -90,6 +90,12 @@ type elementData struct {
 	// startRotation is the released element's own start rotation, rad, once
 	// solved.
 	startRotation float64
+	// modulus and axialModulus are those of the foundations under the
+	// element, N/m² (foundation.go); ground is, once solved, the resultant
+	// of their forces on it: along x, along y, and the moment of the latter
+	// about the element's end (setGround).
+	modulus, axialModulus float64
+	ground                [3]float64
 }
 
 // gauss3 is the 3-point Gauss–Legendre rule on [0, 1], exact for polynomials

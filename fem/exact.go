@@ -16,6 +16,7 @@ import (
 // one small dense system per problem (bar, beam) whose size grows with the
 // number of stretches and supports, not with any mesh.
 type Exact struct {
+	model     *Model    // the model solved (shared with its ExactStructure)
 	keys      []float64 // key points in increasing order: keys[0] = 0, last = L
 	stretches []exactStretch
 	reactions []Reaction
@@ -28,6 +29,26 @@ type exactStretch struct {
 	secondMoment  float64 // I, m⁴
 	thermalStrain float64 // α·ΔT
 	bar, beam     stretchSolution
+	// shear is EI/(G·As) of a Timoshenko stretch, m², 0 for Euler–
+	// Bernoulli; load is its transverse line load at both ends, N/m, which
+	// the shear deformation adds to θ, M and V (shearTerms), and axialLoad
+	// its axial one.
+	shear           float64
+	load, axialLoad [2]float64
+}
+
+// shearTerms are what shear deformation adds, at t, to the rotation and
+// the bending moment and shear force read off the deflection w of a
+// Timoshenko stretch: with θ = w′ + g·θ″, M = EI·θ′ and V = EI·θ″ = M′ under
+// a linear load q (θ‴ = q/EI), θ = w′ + g·w‴ + g²·q′/EI, M = EI·w″ + g·q
+// and V = EI·w‴ + g·q′ (g = EI/(G·As)). The w‴ part of θ is the caller's.
+func (s *exactStretch) shearTerms(t float64) (rotation, moment, shear float64) {
+	if s.shear == 0 {
+		return 0, 0, 0
+	}
+	slope := (s.load[1] - s.load[0]) / s.length // q′, N/m²
+	q := s.load[0] + (s.load[1]-s.load[0])*t
+	return s.shear * s.shear * slope / s.beam.stiffness, s.shear * q, s.shear * slope
 }
 
 // stretchSolution is the closed form of one problem (the bar's u or the
@@ -36,29 +57,63 @@ type exactStretch struct {
 // φ_k whose constants c_k SolveExact finds and a particular solution y_p of
 // the stretch's loads. Working in t keeps all unknowns in metres whatever the
 // stretch length. The equations are written through basis, particular and
-// setConstants only, so a stretch of another kind (on an elastic
-// foundation, with shear deformation) brings its own functions; every
-// stretch today is polynomial: φ_k = t^k and y_p a polynomial, kept as one
-// list of coefficients.
+// setConstants only, so a stretch of another kind brings its own
+// functions. Off a foundation a stretch is polynomial: φ_k = t^k and y_p a
+// polynomial, kept as one list of coefficients. On one, φ_k are the
+// foundation's (groundBasis) and y_p is linear, its coefficients of 1 and
+// t following the constants.
 type stretchSolution struct {
 	stiffness float64 // EA (N) for the bar, EI (N·m²) for the beam
-	// offset is added to the first section action: −EA·α·ΔT turns EA·u' into N.
+	// offset is added to the section action odeProblem.offsetAction names:
+	// −EA·α·ΔT turns EA·u' into N, −EI·κ (κ the free thermal curvature)
+	// turns EI·w'' into M.
 	offset float64
 	// order is the number of homogeneous solutions (2 for the bar, 4 for the beam).
 	order int
 	// coeff holds the constants of the homogeneous part (order terms)
 	// followed by the particular part of a linear load (two terms, known).
 	coeff []float64
+	// ground is the basis on a foundation; its order is 0 off one.
+	ground groundBasis
 }
 
+// polynomial reports whether the solution is a polynomial in t.
+func (s *stretchSolution) polynomial() bool { return s.ground.order == 0 }
+
 // basis is the d-th derivative in t of the k-th homogeneous solution at t.
-func (s *stretchSolution) basis(k, d int, t float64) float64 { return monomialDerivative(k, d, t) }
+func (s *stretchSolution) basis(k, d int, t float64) float64 {
+	if s.polynomial() {
+		return monomialDerivative(k, d, t)
+	}
+	return s.ground.derivative(k, d, t)
+}
 
 // particular is the d-th derivative in t of the particular solution at t.
 func (s *stretchSolution) particular(d int, t float64) float64 {
+	if !s.polynomial() {
+		switch d {
+		case 0:
+			return s.coeff[s.order] + s.coeff[s.order+1]*t
+		case 1:
+			return s.coeff[s.order+1]
+		}
+		return 0
+	}
 	v := 0.0
 	for k := s.order; k < len(s.coeff); k++ {
 		v += s.coeff[k] * monomialDerivative(k, d, t)
+	}
+	return v
+}
+
+// derivative is the d-th derivative in t of the solution at t.
+func (s *stretchSolution) derivative(d int, t float64) float64 {
+	if s.polynomial() {
+		return derivativeAt(s.coeff, d, t)
+	}
+	v := s.particular(d, t)
+	for k := range s.order {
+		v += s.coeff[k] * s.ground.derivative(k, d, t)
 	}
 	return v
 }
@@ -75,6 +130,8 @@ type odeProblem struct {
 	order int
 	dofs  []Dof
 	signs []float64
+	// offsetAction is the action the solution's offset adds to.
+	offsetAction int
 }
 
 var (
@@ -82,7 +139,8 @@ var (
 	exactBar = odeProblem{order: 2, dofs: []Dof{Axial}, signs: []float64{1}}
 	// Beam: T_0 = −V = −EI·w''' (V jumps by +P under an upward force P) and
 	// T_1 = M = EI·w'' (M jumps by −C under a counter-clockwise moment C).
-	exactBeam = odeProblem{order: 4, dofs: []Dof{Transverse, Rotation}, signs: []float64{-1, 1}}
+	// M = EI·(w'' − κ) under a free thermal curvature κ.
+	exactBeam = odeProblem{order: 4, dofs: []Dof{Transverse, Rotation}, signs: []float64{-1, 1}, offsetAction: 1}
 )
 
 // keyPoint gathers what acts at one key point.
@@ -188,7 +246,7 @@ func (es *ExactStructure) Solve(l *Loads) (*Exact, error) {
 
 // blank is an Exact with the stretches of the loads l and no constants yet.
 func (es *ExactStructure) blank(l *Loads) *Exact {
-	e := &Exact{keys: es.keys, stretches: make([]exactStretch, len(es.keys)-1), reactions: make([]Reaction, len(es.model.Supports))}
+	e := &Exact{model: es.model, keys: es.keys, stretches: make([]exactStretch, len(es.keys)-1), reactions: make([]Reaction, len(es.model.Supports))}
 	for j := range e.stretches {
 		e.stretches[j] = newStretch(es.model, l, j)
 	}
@@ -240,10 +298,23 @@ func newStretch(m *Model, l *Loads, j int) exactStretch {
 	}
 	ea, ei := mat.Elastic*sec.Area, mat.Elastic*sec.SecondMoment
 	axial, transverse := l.Axial[j], l.Transverse[j]
-	// EA·u″ = −p and EI·w⁗ = q.
-	s.bar = newStretchSolution(exactBar.order, ea, s.length, -axial[0], -axial[1])
+	// EA·u″ = −p and EI·w⁗ = q, with −kₐ·u and +k·w on a foundation.
+	k, ka := m.foundationAt(0.5 * (a + b))
+	if ka > 0 {
+		s.bar = newGroundSolution(exactBar.order, ea, s.length, ka, -axial[0], -axial[1])
+	} else {
+		s.bar = newStretchSolution(exactBar.order, ea, s.length, -axial[0], -axial[1])
+	}
 	s.bar.offset = -ea * s.thermalStrain
-	s.beam = newStretchSolution(exactBeam.order, ei, s.length, transverse[0], transverse[1])
+	if k > 0 {
+		s.beam = newGroundSolution(exactBeam.order, ei, s.length, k, transverse[0], transverse[1])
+	} else {
+		s.beam = newStretchSolution(exactBeam.order, ei, s.length, transverse[0], transverse[1])
+	}
+	s.shear, s.load, s.axialLoad = seg.shearFlexibility(), transverse, axial
+	if l.TemperatureDifference != nil {
+		s.beam.offset = -ei * mat.ThermalExpansion * l.TemperatureDifference[m.SegmentAt(0.5*(a+b))] / sec.depth()
+	}
 	return s
 }
 
@@ -346,12 +417,32 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 		}
 		sys.rhs(row, -f*s.particular(d, t))
 	}
+	shear := func(j int) float64 {
+		if p.order == exactBeam.order {
+			return e.stretches[j].shear
+		}
+		return 0
+	}
+	// motion adds scale·(the motion of dofs[i]) of stretch j at t to the
+	// row: y^(i), and for the rotation of a Timoshenko beam its shear terms.
+	motion := func(j, i int, t, scale float64) {
+		term(j, i, t, scale)
+		if g := shear(j); g != 0 && i == 1 {
+			term(j, 3, t, scale*g)
+			rot, _, _ := e.stretches[j].shearTerms(t)
+			sys.rhs(row, -scale*rot)
+		}
+	}
 	// action adds scale·T_i of stretch j at t to the row.
 	action := func(j, i int, t, scale float64) {
 		s := e.solution(p, j)
 		term(j, p.order-1-i, t, scale*p.signs[i]*s.stiffness)
-		if i == 0 {
+		if i == p.offsetAction {
 			sys.rhs(row, -scale*s.offset)
+		}
+		if shear(j) != 0 {
+			_, m, v := e.stretches[j].shearTerms(t)
+			sys.rhs(row, -scale*p.signs[i]*[2]float64{v, m}[i])
 		}
 	}
 	next := 0 // index into l.held
@@ -372,13 +463,13 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 					action(k-1, i, 1, 1)
 				} else {
 					action(k-1, i, 1, kp.release)
-					term(k, i, 0, -1)
-					term(k-1, i, 1, 1)
+					motion(k, i, 0, -1)
+					motion(k-1, i, 1, 1)
 				}
 				row++
 			case k > 0 && k < nStretch:
-				term(k, i, 0, 1)
-				term(k-1, i, 1, -1)
+				motion(k, i, 0, 1)
+				motion(k-1, i, 1, -1)
 				row++
 			}
 			if k < nStretch {
@@ -402,7 +493,7 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 				if r.dof != d {
 					continue
 				}
-				term(side, i, t, 1)
+				motion(side, i, t, 1)
 				sys.add(row, l.heldCol[q], r.compliance)
 				sys.rhs(row, r.settlement)
 				row++
@@ -458,20 +549,8 @@ func (e *Exact) At(x float64, side Side) Fields {
 		return Fields{X: x}
 	}
 	j, t := e.locate(x, side)
-	s := &e.stretches[j]
-	h := s.length
-	f := Fields{
-		X:                 s.start + t*h,
-		AxialDisplacement: derivativeAt(s.bar.coeff, 0, t),
-		Deflection:        derivativeAt(s.beam.coeff, 0, t),
-		Rotation:          derivativeAt(s.beam.coeff, 1, t) / h,
-		AxialForce:        s.bar.stiffness*derivativeAt(s.bar.coeff, 1, t)/h + s.bar.offset,
-		ShearForce:        s.beam.stiffness * derivativeAt(s.beam.coeff, 3, t) / (h * h * h),
-		BendingMoment:     s.beam.stiffness * derivativeAt(s.beam.coeff, 2, t) / (h * h),
-	}
-	f.AxialStress = f.AxialForce / s.area
-	f.BendingStress = f.BendingMoment * s.fibre / s.secondMoment
-	f.CombinedStress = extremeFibreStress(f.AxialStress, f.BendingStress)
+	var f Fields
+	e.stretches[j].fields(t, &f)
 	return f
 }
 

@@ -84,6 +84,9 @@ func (s *Solution) fieldsAt(e int, xi float64, f *Fields) {
 	f.AxialForce = sec.axialRigidity * (g.slope + (4-8*xi)*g.bubble/h - sec.thermalStrain)
 
 	n := hermiteValues(xi, h)
+	if sec.shear != 0 { // the interdependent interpolation of a Timoshenko element
+		n, _ = beamShape(xi, h, 12*sec.shear/(h*h))
+	}
 	f.Deflection = n[0]*a[Transverse] + n[1]*a[Rotation] + n[2]*b[Transverse] + n[3]*b[Rotation]
 	d, rest := xi*h, (1-xi)*h
 	curvature := g.curvature + g.third*d
@@ -91,7 +94,7 @@ func (s *Solution) fieldsAt(e int, xi float64, f *Fields) {
 	fromStart := a[Rotation] + d*(g.curvature+g.third*d/2)
 	fromEnd := b[Rotation] - rest*(curvature+g.third*rest/2)
 	f.Rotation = (1-xi)*fromStart + xi*fromEnd
-	f.BendingMoment = sec.flexuralRigidity * curvature
+	f.BendingMoment = sec.flexuralRigidity * (curvature - sec.thermalCurvature)
 	f.ShearForce = sec.flexuralRigidity * g.third
 	sec.stresses(f)
 }
@@ -152,11 +155,12 @@ func (s *Solution) elementInterval(e int, v *Interval) {
 	ea, ei := sec.axialRigidity, sec.flexuralRigidity
 	// The constant terms as fieldsAt computes them at ξ = 0, to the bit.
 	n0 := ea * (g.slope + 4*g.bubble/h - sec.thermalStrain)
-	m0 := ei * g.curvature
+	m0 := ei * (g.curvature - sec.thermalCurvature)
 	shear := ei * g.third
 	u, w, r := &p[QAxialDisplacement], &p[QDeflection], &p[QRotation]
 	u[0], u[1], u[2] = a[Axial], b[Axial]-a[Axial]+4*g.bubble, -4*g.bubble
-	w[0], w[1], w[2], w[3] = a[Transverse], h*startRotation, h*h*g.curvature/2, h*h*h*g.third/6
+	w[0], w[1] = a[Transverse], h*(startRotation-sec.shear*g.third) // w′ = θ − g·θ″
+	w[2], w[3] = h*h*g.curvature/2, h*h*h*g.third/6
 	r[0], r[1], r[2] = startRotation, h*g.curvature, h*h*g.third/2
 	p[QAxialForce][0], p[QAxialForce][1] = n0, -8*ea*g.bubble/h
 	p[QShearForce][0] = shear
@@ -168,7 +172,7 @@ func (s *Solution) elementInterval(e int, v *Interval) {
 	start.AxialForce, start.ShearForce, start.BendingMoment = n0, shear, m0
 	end.X, end.AxialDisplacement, end.Deflection, end.Rotation = el.Start+h, b[Axial], b[Transverse], b[Rotation]
 	end.AxialForce = ea * (g.slope + -4*g.bubble/h - sec.thermalStrain)
-	end.ShearForce, end.BendingMoment = shear, ei*(g.curvature+g.third*h)
+	end.ShearForce, end.BendingMoment = shear, ei*(g.curvature+g.third*h-sec.thermalCurvature)
 	sec.stresses(start)
 	sec.stresses(end)
 	// The stresses' constant terms are the start's; their slopes follow

@@ -202,7 +202,7 @@ func (r *stretchRefiner) displacement(i int) [3]float64 {
 // stretch d, between fine nodes lo and hi.
 func (r *stretchRefiner) startTaylor(d *elementData, lo, hi int) taylor {
 	a, b := r.displacement(lo), r.disp[hi]
-	_, _, d2, d3 := hermite(0, d.length)
+	d2, d3 := rotationSlopes(d.length, d.phi(d.length))
 	beam := [4]float64{a[Transverse], a[Rotation], b[Transverse], b[Rotation]}
 	var c taylor
 	c.slope = (b[Axial] - a[Axial]) / d.length
@@ -237,6 +237,9 @@ func (r *stretchRefiner) middle(lo, hi int, c taylor) (m int, left, right taylor
 	// elements (its thermal forces cancel). Beam: the end block of the left
 	// element plus the start block of the right one, loaded by their
 	// consistent forces at m.
+	if r.shear != 0 {
+		return r.middleWithShear(lo, m, hi, c)
+	}
 	var cu float64
 	var fl, fr localVector
 	if s := r.stretch; len(s.breaks) == 0 {
@@ -283,6 +286,70 @@ func (r *stretchRefiner) middle(lo, hi int, c taylor) (m int, left, right taylor
 	return m, left, right
 }
 
+// middleWithShear is middle for a Timoshenko stretch (shear flexibility g =
+// EI/(G·As) > 0): the functions of m are those of the interdependent
+// interpolation elements [lo, m] and [m, hi] (beamShape), still
+// energy-orthogonal to every coarser function because they solve the
+// homogeneous Timoshenko equations. The Taylor data carry θ′ and θ″ (not
+// w″, w‴): w′ = θ − g·θ″ (the shear strain), w″ = θ′ and w‴ = θ″.
+func (r *stretchRefiner) middleWithShear(lo, m, hi int, c taylor) (int, taylor, taylor) {
+	xl, xm, xh := r.x[lo], r.x[m], r.x[hi]
+	a, b := xm-xl, xh-xm
+	ia, ib := 1/a, 1/b
+	s, g := r.stretch, r.shear
+	cu := (s.linearBarLoadsOn(xl, xm)[1] + s.linearBarLoadsOn(xm, xh)[0]) / (r.axialRigidity * (ia + ib))
+	fl, fr := s.hermiteLoadsOn(xl, xm), s.hermiteLoadsOn(xm, xh)
+	pa, pb := 12*g*ia*ia, 12*g*ib*ib // φ of each element
+	ma, mb := 1/(1+pa), 1/(1+pb)
+	ei := r.flexuralRigidity
+	k11 := 12 * ei * (ma*ia*ia*ia + mb*ib*ib*ib)
+	k12 := 6 * ei * (mb*ib*ib - ma*ia*ia)
+	k22 := ei * ((4+pa)*ma*ia + (4+pb)*mb*ib)
+	fw, ft := fl[2]+fr[0], fl[3]+fr[1]
+	if len(r.points) > 0 {
+		pu, pw, pt := r.pointsOn(lo, m, hi)
+		cu += pu / (r.axialRigidity * (ia + ib))
+		fw, ft = fw+pw, ft+pt
+	}
+	idet := 1 / (k11*k22 - k12*k12)
+	cw := (k22*fw - k12*ft) * idet
+	ct := (k11*ft - k12*fw) * idet
+
+	p := r.displacement(lo)
+	r.disp[m] = [3]float64{
+		p[Axial] + c.slope*a + cu,
+		p[Transverse] + a*(p[Rotation]-g*c.third+a*(c.curvature/2+a*c.third/6)) + cw,
+		p[Rotation] + a*(c.curvature+a*c.third/2) + ct,
+	}
+	// θ′ and θ″ of the left element's end functions at its start and of
+	// the right element's start functions (beamShape's θ, differentiated).
+	left := taylor{
+		slope:     c.slope + cu*ia,
+		curvature: c.curvature + ma*(6*cw*ia-(2-pa)*ct)*ia,
+		third:     c.third + ma*(6*ct-12*cw*ia)*ia*ia,
+	}
+	right := taylor{
+		slope:     c.slope - cu*ib,
+		curvature: c.curvature + a*c.third - mb*(6*cw*ib+(4+pb)*ct)*ib,
+		third:     c.third + mb*(12*cw*ib+6*ct)*ib*ib,
+	}
+	return m, left, right
+}
+
+// rotationSlopes are the first and second derivatives at the start of the
+// rotation's shape functions (beamShape's θ) for an element of length h
+// with shear parameter φ: θ′ and θ″ of the element from its end values.
+func rotationSlopes(h, phi float64) (d1, d2 [4]float64) {
+	if phi == 0 {
+		_, _, d2, d3 := hermite(0, h)
+		return d2, d3
+	}
+	mu := 1 / (1 + phi)
+	d1 = [4]float64{-6 * mu / (h * h), -(4 + phi) * mu / h, 6 * mu / (h * h), -(2 - phi) * mu / h}
+	d2 = [4]float64{12 * mu / (h * h * h), 6 * mu / (h * h), -12 * mu / (h * h * h), 6 * mu / (h * h)}
+	return d1, d2
+}
+
 // finish stores element e's derivatives, solves its bubble and adds its energy.
 func (r *stretchRefiner) finish(e int, c taylor) {
 	h := r.x[e+1] - r.x[e]
@@ -302,7 +369,9 @@ func (r *stretchRefiner) finish(e int, c taylor) {
 		bar += 16.0 / 3 * (f.bubble / h) * (f.bubble / h)
 	}
 	// ∫(w'' + w'''·s)² ds over [0, h].
-	bend := c.curvature*c.curvature + h*c.third*(c.curvature+h*c.third/3)
+	k0 := c.curvature - r.thermalCurvature // the curvature less the free thermal one
+	bend := k0*k0 + h*c.third*(k0+h*c.third/3)
+	bend += r.shear * c.third * c.third // G·As·γ² = EI·g·θ″² with γ = −g·θ″
 	r.energy += h * (r.axialRigidity*bar + r.flexuralRigidity*bend)
 	r.fields[e] = f
 	d := r.disp[e]
@@ -326,14 +395,14 @@ func (r *stretchRefiner) pointsOn(lo, m, hi int) (bar, w, theta float64) {
 		case node < m:
 			h := r.x[m] - r.x[lo]
 			xi := (r.x[node] - r.x[lo]) / h
-			n, d1, _, _ := hermite(xi, h)
+			n, d1 := beamShape(xi, h, r.stretch.phi(h))
 			bar += xi * p.Axial
 			w += n[2]*p.Transverse + d1[2]*p.Moment
 			theta += n[3]*p.Transverse + d1[3]*p.Moment
 		default:
 			h := r.x[hi] - r.x[m]
 			xi := (r.x[node] - r.x[m]) / h
-			n, d1, _, _ := hermite(xi, h)
+			n, d1 := beamShape(xi, h, r.stretch.phi(h))
 			bar += (1 - xi) * p.Axial
 			w += n[0]*p.Transverse + d1[0]*p.Moment
 			theta += n[1]*p.Transverse + d1[1]*p.Moment
@@ -353,7 +422,10 @@ func (r *stretchRefiner) transverseAt(x float64) float64 {
 }
 
 // keyNodes returns the index in x of every key point of m but the point
-// loads, in order.
+// loads, in order, and every node on a foundation: the foundation's
+// stiffness couples the hierarchical functions, which are orthogonal in
+// the member's stiffness alone, so a stretch on a foundation is solved
+// element by element in the factorized system.
 func keyNodes(m *Model, x []float64) ([]int, error) {
 	keys := systemKeyPoints(m)
 	idx := make([]int, len(keys))
@@ -366,5 +438,17 @@ func keyNodes(m *Model, x []float64) ([]int, error) {
 	if idx[len(idx)-1] != len(x)-1 {
 		return nil, fmt.Errorf("fem: the mesh does not end at the member end x = %s: rebuild the mesh", fmtMetres(keys[len(keys)-1]))
 	}
-	return idx, nil
+	if len(m.Foundations) == 0 {
+		return idx, nil
+	}
+	all := make([]int, 0, len(idx))
+	for j := range len(idx) - 1 {
+		all = append(all, idx[j])
+		if k, ka := m.foundationAt(0.5 * (keys[j] + keys[j+1])); k > 0 || ka > 0 {
+			for i := idx[j] + 1; i < idx[j+1]; i++ {
+				all = append(all, i)
+			}
+		}
+	}
+	return append(all, idx[len(idx)-1]), nil
 }

@@ -14,9 +14,10 @@ const (
 	CaseItem                            // Model.Cases[Index]
 	CombinationItem                     // Model.Combinations[Index]
 	HingeItem                           // Model.Hinges[Index]
+	FoundationItem                      // Model.Foundations[Index]
 )
 
-var itemKindNames = [...]string{"model", "segment", "support", "point load", "distributed load", "mesh", "load case", "combination", "hinge"}
+var itemKindNames = [...]string{"model", "segment", "support", "point load", "distributed load", "mesh", "load case", "combination", "hinge", "foundation"}
 
 // String names the kind as messages do.
 func (k ItemKind) String() string {
@@ -41,7 +42,7 @@ type Item struct {
 type Feature struct {
 	X      float64 // m
 	Item   Item
-	Vertex int // for a distributed load, the index of its vertex; for a segment, 0 at its start and 1 at its end
+	Vertex int // for a distributed load, the index of its vertex; for a segment or a foundation, 0 at its start and 1 at its end
 }
 
 // Features lists every feature of m in model order (not sorted, not merged).
@@ -55,6 +56,9 @@ func Features(m *Model) []Feature {
 	}
 	for i, h := range m.Hinges {
 		out = append(out, Feature{X: h.X, Item: Item{Kind: HingeItem, Index: i}})
+	}
+	for i, f := range m.Foundations {
+		out = append(out, Feature{f.Start, Item{Kind: FoundationItem, Index: i}, 0}, Feature{f.End, Item{Kind: FoundationItem, Index: i}, 1})
 	}
 	out = loadFeatures(out, m.PointLoads, m.DistributedLoad, 0)
 	for c := range m.Cases {
@@ -73,19 +77,25 @@ type Property int
 const (
 	NoProperty Property = iota // the item as a whole
 
-	StartProperty            // Segment.Start
-	EndProperty              // Segment.End
-	AreaProperty             // Segment.Section.Area
-	SecondMomentProperty     // Segment.Section.SecondMoment
-	FibreDistanceProperty    // Segment.Section.FibreDistance
-	ElasticProperty          // Segment.Material.Elastic
-	DensityProperty          // Segment.Material.Density
-	ThermalExpansionProperty // Segment.Material.ThermalExpansion
-	AllowableProperty        // Segment.Material.Allowable
+	StartProperty                 // Segment.Start or Foundation.Start
+	EndProperty                   // Segment.End or Foundation.End
+	AreaProperty                  // Segment.Section.Area
+	SecondMomentProperty          // Segment.Section.SecondMoment
+	FibreDistanceProperty         // Segment.Section.FibreDistance
+	ElasticProperty               // Segment.Material.Elastic
+	DensityProperty               // Segment.Material.Density
+	ThermalExpansionProperty      // Segment.Material.ThermalExpansion
+	AllowableProperty             // Segment.Material.Allowable
+	DepthProperty                 // Segment.Section.Depth
+	TemperatureDifferenceProperty // Segment.TemperatureDifference
+	ShearAreaProperty             // Segment.Section.ShearArea
+	ShearCoefficientProperty      // Segment.Section.ShearCoefficient
+	ShearModulusProperty          // Segment.Material.ShearModulus
+	PoissonProperty               // Segment.Material.Poisson
 
 	PositionProperty        // Support.X or PointLoad.X
 	KindProperty            // Support.Kind
-	StiffnessProperty       // Support.Stiffness as a whole
+	StiffnessProperty       // Support.Stiffness as a whole, or Hinge.Stiffness
 	MotionStiffnessProperty // Support.Stiffness[Dof]
 	SettlementProperty      // Support.Settlement[Dof]
 
@@ -111,6 +121,9 @@ const (
 	FactorCaseProperty      // Combination.Factors[Vertex].Case
 	FactorProperty          // Combination.Factors[Vertex].Factor
 	CombinationKindProperty // Combination.Kind
+
+	ModulusProperty      // Foundation.Modulus
+	AxialModulusProperty // Foundation.AxialModulus
 )
 
 // Place says where in a model something lies: an item, one of its

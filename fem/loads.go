@@ -17,6 +17,9 @@ type Loads struct {
 	Points []PointLoad
 	// TemperatureChange is the uniform change of temperature, K.
 	TemperatureChange float64
+	// TemperatureDifference is each segment's temperature difference
+	// through the depth (Segment.TemperatureDifference), K; nil when none.
+	TemperatureDifference []float64
 	// Settlement is each support's prescribed displacement, in the order of
 	// Model.Supports: m, m, rad (see Support.Settlement).
 	Settlement [][3]float64
@@ -38,6 +41,14 @@ func GatherLoads(m *Model, keys []float64) Loads {
 	}
 	for i, s := range m.Supports {
 		l.Settlement[i] = s.Settlement
+	}
+	for i, s := range m.Segments {
+		if s.TemperatureDifference != 0 {
+			if l.TemperatureDifference == nil {
+				l.TemperatureDifference = make([]float64, len(m.Segments))
+			}
+			l.TemperatureDifference[i] = s.TemperatureDifference
+		}
 	}
 	seg := 0
 	for j := range n {
@@ -89,7 +100,7 @@ func (l *Loads) bendsMember() bool {
 			return true
 		}
 	}
-	return false
+	return l.TemperatureDifference != nil
 }
 
 // Resultant sums the loads exactly: the force along x, the force along y

@@ -36,7 +36,7 @@ type MechanismPart struct {
 // rotation) at each hinge: hingeMechanism. Without bending (an axial-only
 // member) only the bar's counts.
 func checkMechanism(m *Model, bending bool) error {
-	var axial, rotation bool
+	var axial, rotation, ground bool
 	var deflection []float64
 	for _, s := range m.Supports {
 		axial = axial || s.Holds(Axial)
@@ -45,6 +45,11 @@ func checkMechanism(m *Model, bending bool) error {
 			deflection = append(deflection, s.X)
 		}
 	}
+	// A foundation holds every rigid motion of the stretch it lies under.
+	for _, f := range m.Foundations {
+		axial = axial || f.AxialModulus > 0
+		ground = ground || f.Modulus > 0
+	}
 	switch {
 	case !axial:
 		return &MechanismError{Motion: "axial", Message: "the member can slide along its axis: add an axial restraint (pinned, fixed, axial or spring support)"}
@@ -52,6 +57,8 @@ func checkMechanism(m *Model, bending bool) error {
 		return nil
 	case len(m.Hinges) > 0:
 		return hingeMechanism(m)
+	case ground:
+		return nil
 	case len(deflection) == 0:
 		return &MechanismError{Motion: "transverse", Message: "the member can move sideways: add a support that restrains deflection",
 			Parts: []MechanismPart{{Start: 0, End: m.Length(), Offset: 1}}}
@@ -104,6 +111,19 @@ func hingeMechanism(m *Model) error {
 		if s.Holds(Rotation) {
 			r := row()
 			r[2*p+1] = 1
+		}
+	}
+	for _, f := range m.Foundations {
+		if f.Modulus == 0 {
+			continue
+		}
+		for p := range parts { // a part with ground under it cannot move
+			if min(f.End, cuts[p+1]) > max(f.Start, cuts[p]) {
+				r := row()
+				r[2*p] = 1
+				r = row()
+				r[2*p+1] = 1
+			}
 		}
 	}
 	a := mat.NewDense(max(len(rows), 1), 2*parts, nil)

@@ -40,24 +40,30 @@ func Prepare(m *Model) (*Member, error) {
 	for i := range p.loadSets {
 		bends = bends || p.loadSets[i].bendsMember()
 	}
-	p.bending = !m.AxialOnly && (bends || holdsAcross(m.Supports))
+	p.bending = !m.AxialOnly && (bends || holdsAcross(m))
 	p.mechanism = checkMechanism(m, p.bending)
 	return p, nil
 }
 
 // Bending reports whether the member's bending is solved: it is not
 // declared axial-only, and something loads it transversely or a support
-// holds it across or in rotation. Otherwise it is solved as a bar alone:
+// holds it across or in rotation, or a foundation holds it across.
+// Otherwise it is solved as a bar alone:
 // the deflection, rotation, shear force and bending moment are zero and not
 // reported, and the supports need not hold it sideways (a tie on two axial
 // supports is no mechanism).
 func (p *Member) Bending() bool { return p.bending }
 
 // holdsAcross reports whether any support holds the member across it or in
-// rotation, rigidly or by a spring.
-func holdsAcross(sups []Support) bool {
-	for _, s := range sups {
+// rotation, rigidly or by a spring, or a foundation holds it across.
+func holdsAcross(m *Model) bool {
+	for _, s := range m.Supports {
 		if s.Holds(Transverse) || s.Holds(Rotation) {
+			return true
+		}
+	}
+	for _, f := range m.Foundations {
+		if f.Modulus > 0 {
 			return true
 		}
 	}

@@ -21,10 +21,10 @@ func KeyPoints(m *Model) []float64 {
 }
 
 // systemKeyPoints are the key points the factorized key-point system holds:
-// those where the member itself changes, its ends, the supports, the hinges
-// and the breaks between segments of different stiffness. Loads stay out of it
-// (pieces.go): a load close to a support would otherwise make a short,
-// stiff stretch there.
+// those where the member itself changes, its ends, the supports, the
+// hinges, the ends of foundations and the breaks between segments of
+// different stiffness. Loads stay out of it (pieces.go): a load close to a
+// support would otherwise make a short, stiff stretch there.
 func systemKeyPoints(m *Model) []float64 {
 	pts := []float64{0, m.Length()}
 	for _, s := range m.Supports {
@@ -32,6 +32,9 @@ func systemKeyPoints(m *Model) []float64 {
 	}
 	for _, h := range m.Hinges {
 		pts = append(pts, h.X)
+	}
+	for _, f := range m.Foundations {
+		pts = append(pts, f.Start, f.End)
 	}
 	for i := 1; i < len(m.Segments); i++ {
 		if !sameStiffness(m.Segments[i-1], m.Segments[i]) {
@@ -46,7 +49,8 @@ func systemKeyPoints(m *Model) []float64 {
 // changes only what is read off the fields, such as stresses).
 func sameStiffness(a, b Segment) bool {
 	ea, eb := a.Material, b.Material
-	return ea.Elastic*a.Section.Area == eb.Elastic*b.Section.Area &&
+	return a.shearFlexibility() == b.shearFlexibility() &&
+		ea.Elastic*a.Section.Area == eb.Elastic*b.Section.Area &&
 		ea.Elastic*a.Section.SecondMoment == eb.Elastic*b.Section.SecondMoment &&
 		ea.ThermalExpansion == eb.ThermalExpansion
 }

@@ -31,6 +31,32 @@ type Section struct {
 	Area          float64 // A, m²
 	SecondMoment  float64 // I about the bending axis, m⁴
 	FibreDistance float64 // c, distance from the neutral axis to the extreme fibre, m
+	// Depth is the distance between the bottom and top fibres, m, over
+	// which a temperature difference bends the member; 0 means twice the
+	// fibre distance (a section symmetric about its neutral axis).
+	Depth float64
+	// ShearArea is the area that carries the shear force in shear
+	// deformation, As, m²; 0 means ShearCoefficient·A.
+	ShearArea float64
+	// ShearCoefficient is κ with As = κ·A (5/6 for a solid rectangle,
+	// about the web's share of A for an I-section), when ShearArea is 0.
+	ShearCoefficient float64
+}
+
+// shearArea is As, given or from κ·A.
+func (s Section) shearArea() float64 {
+	if s.ShearArea > 0 {
+		return s.ShearArea
+	}
+	return s.ShearCoefficient * s.Area
+}
+
+// depth is the section's depth for thermal bending, m (see Depth).
+func (s Section) depth() float64 {
+	if s.Depth > 0 {
+		return s.Depth
+	}
+	return 2 * s.FibreDistance
 }
 
 // Material holds the material properties of a segment.
@@ -40,6 +66,18 @@ type Material struct {
 	Density          float64 // ρ, kg/m³ (used for self-weight)
 	ThermalExpansion float64 // α, 1/K
 	Allowable        float64 // allowable (or yield) stress, Pa; 0 means not given
+	// ShearModulus is G, Pa, for shear deformation; 0 means E/(2(1+ν)).
+	ShearModulus float64
+	// Poisson is Poisson's ratio ν, which gives G when ShearModulus is 0.
+	Poisson float64
+}
+
+// shearModulus is G, given or from E and ν.
+func (m Material) shearModulus() float64 {
+	if m.ShearModulus > 0 {
+		return m.ShearModulus
+	}
+	return m.Elastic / (2 * (1 + m.Poisson))
 }
 
 // Segment is a stretch of the member with one section and one material.
@@ -48,6 +86,24 @@ type Segment struct {
 	Start, End float64 // m
 	Section    Section
 	Material   Material
+	// TemperatureDifference is how much warmer the bottom fibre is than the
+	// top one, K (a roof beam in sun has it negative): it curves the
+	// segment by α·ΔT/depth, which restrained members resist with moments.
+	// In a model with load cases it acts in the cases marked ThermalGradient.
+	TemperatureDifference float64
+	// ShearDeformation makes the segment a Timoshenko beam: its shear
+	// stiffness G·As adds shear deflection to bending (Section.ShearArea or
+	// ShearCoefficient, Material.ShearModulus or Poisson).
+	ShearDeformation bool
+}
+
+// shearFlexibility is EI/(G·As) of a segment with shear deformation, m²;
+// 0 without (Euler–Bernoulli).
+func (s Segment) shearFlexibility() float64 {
+	if !s.ShearDeformation {
+		return 0
+	}
+	return s.Material.Elastic * s.Section.SecondMoment / (s.Material.shearModulus() * s.Section.shearArea())
 }
 
 // SupportKind says which motions a support restrains.
@@ -133,6 +189,36 @@ type Hinge struct {
 	Stiffness float64 // N·m/rad across the joint; 0 for a pure hinge
 }
 
+// Foundation is an elastic (Winkler) foundation under the stretch from
+// Start to End: a bed of independent springs that pushes back on the member
+// in proportion to its motion there, −Modulus·w across and −AxialModulus·u
+// along (a ground beam on soil, a rail on its bed, a pile in the ground).
+// A modulus per unit area of ground, such as a subgrade modulus in N/m³,
+// times the width of the member's contact gives the modulus here.
+// Foundations that overlap add up.
+type Foundation struct {
+	Start, End float64 // m
+	// Modulus is the transverse stiffness per unit length, N/m per m of
+	// deflection: N/m².
+	Modulus float64
+	// AxialModulus is the stiffness along the member per unit length, N/m
+	// per m of axial displacement (skin friction of a pile taken as
+	// elastic): N/m²; 0 leaves the axial motion free.
+	AxialModulus float64
+}
+
+// foundationAt is the total transverse and axial modulus of the
+// foundations under x, N/m², reading a foundation's end as outside it.
+func (m *Model) foundationAt(x float64) (modulus, axial float64) {
+	for _, f := range m.Foundations {
+		if x > f.Start && x < f.End {
+			modulus += f.Modulus
+			axial += f.AxialModulus
+		}
+	}
+	return modulus, axial
+}
+
 // PointLoad is a concentrated force and/or moment at one point.
 type PointLoad struct {
 	X          float64 // m
@@ -182,7 +268,9 @@ type Model struct {
 	Segments []Segment
 	Supports []Support
 	// Hinges release the bending moment at points inside the member.
-	Hinges          []Hinge
+	Hinges []Hinge
+	// Foundations carry the member elastically along stretches of it.
+	Foundations     []Foundation
 	PointLoads      []PointLoad
 	DistributedLoad []DistributedLoad
 	// Gravity is the acceleration of self-weight in member axes (x along the
@@ -232,6 +320,7 @@ func (m *Model) Clone() Model {
 	c.Segments = slices.Clone(m.Segments)
 	c.Supports = slices.Clone(m.Supports)
 	c.Hinges = slices.Clone(m.Hinges)
+	c.Foundations = slices.Clone(m.Foundations)
 	c.PointLoads, c.DistributedLoad = cloneLoads(m.PointLoads, m.DistributedLoad)
 	if m.Cases != nil {
 		c.Cases = make([]LoadCase, len(m.Cases))

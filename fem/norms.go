@@ -3,29 +3,53 @@ package fem
 import "math"
 
 // ErrorNorms measure how far a finite element solution is from the exact one.
+// The three relative measures, in words:
 //
-// The relative measures divide by the exact solution's measure. Where that
-// measure vanishes (to round-off: a free bar heated, a determinate member
-// whose support settles) the ratio would be 0/0 or x/0, and round-off noise
-// would read as a 100 % error. Compare then divides instead by a scale of the
-// problem: the same measure built from the sizes of the terms that cancel in
-// N and M, exact (for example E·α·ΔT against E·u') and finite element (nodal
-// values times the largest shape-function derivatives). An error at round-off level then
-// reads 0, a real error a finite ratio; the relative measures stay finite and
-// can be plotted and stored, unlike +Inf or NaN.
+//   - MaxStressRelative, the largest stress error: the largest difference
+//     between the finite element and the exact combined stress anywhere
+//     along the member, as a share of the largest exact stress;
+//   - RelativeL2, the displacement error: the root mean square over the
+//     member of the difference in displacement (u and w), as a share of
+//     the root mean square of the exact displacement;
+//   - RelativeEnergy, the energy error: the square root of the strain
+//     energy of the difference between the two solutions, as a share of
+//     the square root of the exact strain energy — the measure finite
+//     element theory bounds, and the one adaptive refinement aims at.
+//
+// Each is divided by a measure of the exact solution, and a measure can
+// vanish: a bar held at both ends and heated does not move, a free bar
+// heated or a determinate beam whose support settles carries no stress.
+// The ratio would then be round-off over round-off, read as 100 %, or x/0.
+// So each measure has a scale that cannot vanish while anything acts on
+// the member, built from the sizes of the terms that make N and M (for
+// example E·α·ΔT beside E·u'), exact and finite element alike: for the
+// stress and the energy the same measure of those terms, for the
+// displacement the displacement those strains and curvatures add up to
+// over the member's length (its characteristic displacement). Where the
+// exact measure is negligible against its scale (below negligible times
+// it), the error is judged against the scale instead: round-off reads 0, a
+// real error a finite ratio, never +Inf or NaN.
 type ErrorNorms struct {
 	MaxDeflection     float64 // max |w_h − w| over the member, m
 	MaxAxial          float64 // max |u_h − u|, m
 	MaxStress         float64 // max |σ_h − σ| of the combined stress, Pa (see Comparison)
-	MaxStressRelative float64 // MaxStress / max |σ|
-	RelativeL2        float64 // ‖(u_h,w_h) − (u,w)‖₂ / ‖(u,w)‖₂
-	RelativeEnergy    float64 // energy norm of the error / energy norm of the exact solution
+	MaxStressAt       float64 // where MaxStress is reached, m; the first such place along the member
+	MaxStressRelative float64 // the largest stress error, relative (see above)
+	RelativeL2        float64 // the displacement error, relative
+	RelativeEnergy    float64 // the energy error, relative
 }
 
 // roundOff is the size of round-off in nodal values relative to the terms
 // that make them: a few roundings per level of the hierarchy and in the
 // exact solution's sums, with margin.
 const roundOff = 256 * 0x1p-52
+
+// Names of the three relative measures, for every output.
+const (
+	StressErrorName       = "largest stress error"
+	DisplacementErrorName = "displacement error (root mean square)"
+	EnergyErrorName       = "energy error"
+)
 
 // negligible is the relative size below which an exact measure counts as zero.
 const negligible = 1e-9
@@ -82,10 +106,12 @@ type errorIntegrals struct {
 // exactMeasures are the sizes of the exact solution that the relative
 // errors divide by: max |σ| and max of the sizes of the terms that make σ
 // (Pa), the squared L2 norm of the displacements, the energy and the
-// energy of the terms that make N and M.
+// energy of the terms that make N and M, and the squared L2 norms of the
+// strains and curvatures those terms make (m and 1/m).
 type exactMeasures struct {
 	stress, stressTerms       float64
 	disp, energy, energyTerms float64
+	strainTerms, curveTerms   float64
 }
 
 // NewComparison is an empty comparison of s with e, which has measured e
@@ -103,6 +129,10 @@ func NewComparison(s *Solution, e *Exact) *Comparison {
 
 // add measures the exact solution on stretch st, whose fields are v.
 func (m *exactMeasures) add(st *exactStretch, v *Interval) {
+	if v.closed.stretch != nil {
+		m.addClosed(st, v)
+		return
+	}
 	lo, hi := v.Range(QCombinedStress)
 	m.stress = math.Max(m.stress, math.Max(math.Abs(lo.Value), math.Abs(hi.Value)))
 	// The sizes Σ|term| of the terms that make N (the thermal term included)
@@ -130,7 +160,18 @@ func (m *exactMeasures) add(st *exactStretch, v *Interval) {
 		at, bt := axial.at(2, q.xi), bending.at(3, q.xi)
 		m.energy += q.w * h * (nq*nq/ea + mq*mq/ei)
 		m.energyTerms += q.w * h * (at*at/ea + bt*bt/ei)
+		m.strainTerms += q.w * h * at * at / (ea * ea)
+		m.curveTerms += q.w * h * bt * bt / (ei * ei)
 	}
+}
+
+// dispTerms is the L2 norm of the characteristic displacement of a member
+// of length L (m^1.5): the strains and curvatures that make N and M, over
+// the member's length, ‖ε‖·L and ‖κ‖·L² — for a bar held at both ends and
+// heated, |α·ΔT|·L over its length; a scale of the displacements that
+// does not vanish where the displacements do.
+func (m *exactMeasures) dispTerms(L float64) float64 {
+	return math.Sqrt(m.strainTerms*L*L + m.curveTerms*L*L*L*L)
 }
 
 // Visit compares the two solutions on one element: the errors of u and w
@@ -143,6 +184,10 @@ func (c *Comparison) Visit(v *ElementView) {
 		return
 	}
 	fe, ex := &v.FE, &v.Exact
+	if ex.closed.stretch != nil {
+		c.visitClosed(v)
+		return
+	}
 	// The differences are of the exact fields' degrees (exactDegrees), at
 	// least the finite element ones for the elements of fem: u cubic, w
 	// quintic, N quadratic, M cubic.
@@ -159,13 +204,13 @@ func (c *Comparison) Visit(v *ElementView) {
 	sec := &c.solution.sections[v.Segment]
 	in := &c.sums
 	// The nodal values of both solutions agree to round-off, relative to
-	// the size of the exact stretch's terms (Interval.size): the errors of
-	// u and w are bubbles, in closed form. Where they do not (a solution
-	// that lost digits), the errors are measured as they are: their
-	// largest values searched for, the fewest Gauss points exact for each
-	// square (du² of degree 6, dw² of degree 10).
+	// the size of the exact stretch's terms (ElementView.exactSize): the
+	// errors of u and w are bubbles, in closed form. Where they do not (a
+	// solution that lost digits), the errors are measured as they are:
+	// their largest values searched for, the fewest Gauss points exact for
+	// each square (du² of degree 6, dw² of degree 10).
 	disp := 0.0
-	if a, b, ok := linearBubble(&du, roundOff*ex.size[0]); ok {
+	if a, b, ok := linearBubble(&du, roundOff*v.exactSize[0]); ok {
 		if bound := (math.Abs(a) + math.Abs(b)) / 4; bound > m.axial {
 			m.axial = max(m.axial, linearBubbleMax(a, b))
 		}
@@ -179,7 +224,7 @@ func (c *Comparison) Visit(v *ElementView) {
 			disp += q.w * uq * uq
 		}
 	}
-	if a, b, ok := hermiteBubble(&dw, roundOff*ex.size[1]); ok {
+	if a, b, ok := hermiteBubble(&dw, roundOff*v.exactSize[1]); ok {
 		if bound := max(math.Abs(a), math.Abs(a+b)) / 16; bound > m.deflection {
 			m.deflection = max(m.deflection, hermiteBubbleMax(a, b))
 		}
@@ -235,9 +280,11 @@ func (c *Comparison) Norms() ErrorNorms {
 		MaxDeflection: m.deflection,
 		MaxAxial:      m.axial,
 		MaxStress:     m.stress,
+		MaxStressAt:   m.stressAt,
 		MaxStressRelative: relativeError(m.stress, ex.stress, ex.stressTerms,
 			func() float64 { return own().stressTerms }),
-		RelativeL2: relativeError(math.Sqrt(in.dispErr), math.Sqrt(ex.disp), math.Sqrt(ex.disp),
+		RelativeL2: relativeError(math.Sqrt(in.dispErr), math.Sqrt(ex.disp),
+			math.Max(math.Sqrt(ex.disp), ex.dispTerms(c.solution.Model.Length())),
 			func() float64 { return math.Sqrt(own().disp) }),
 		RelativeEnergy: relativeError(math.Sqrt(in.energyErr), math.Sqrt(ex.energy), math.Sqrt(ex.energyTerms),
 			func() float64 { return math.Sqrt(own().energyTerms) }),

@@ -144,6 +144,33 @@ func TestCompareVanishingExactStress(t *testing.T) {
 	}
 }
 
+// A bar held at both ends and heated does not move: the displacement error
+// is round-off over round-off, which read 128 % when it was divided by the
+// exact displacement alone. Here the two segments carry the same thermal
+// force E·A·α·ΔT (A and α in inverse proportion), equal to the last bit or
+// not, so the exact u is zero (restrained bar under a temperature change:
+// N = −E·A·α·ΔT, u = 0; Gere & Goodno, Mechanics of Materials, thermal
+// effects, from memory) and both solutions find round-off there.
+func TestCompareVanishingExactDisplacement(t *testing.T) {
+	for _, area := range []float64{0.0033, 0.0031, 0.007} {
+		m := Model{Segments: member(tL, 1.7), Supports: []Support{{X: 0, Kind: Fixed}, {X: tL, Kind: Fixed}},
+			TemperatureChange: 30, Mesh: MeshSettings{Elements: 10}}
+		m.Segments[1].Section.Area = area
+		m.Segments[1].Material.ThermalExpansion = tX * tA / area
+		s, e := solveBoth(t, &m)
+		got := Compare(s, e)
+		if got.RelativeL2 > 1e-12 || got.RelativeEnergy > 1e-12 || got.MaxStressRelative > 1e-12 {
+			t.Errorf("A₂ = %g m²: displacement error %g, energy error %g, stress error %g; want round-off (< 1e-12) (largest |u_h − u| %g m)",
+				area, got.RelativeL2, got.RelativeEnergy, got.MaxStressRelative, got.MaxAxial)
+		}
+		// The axial force is the restrained thermal force of either segment.
+		want := -tE * tA * tX * 30
+		if n := e.At(1, Right).AxialForce; math.Abs(n-want) > 1e-9*math.Abs(want) {
+			t.Errorf("A₂ = %g m²: exact N = %g N, want −E·A·α·ΔT = %g N", area, n, want)
+		}
+	}
+}
+
 func TestRelativeError(t *testing.T) {
 	for _, c := range []struct {
 		name                                  string

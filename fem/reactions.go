@@ -200,5 +200,12 @@ func change(d Dof, e *elementData, shear float64) float64 {
 			c += p.Transverse*(e.start+h-p.X) - p.Moment
 		}
 	}
+	// The foundation's forces act like line loads (setGround).
+	switch d {
+	case Axial:
+		c -= e.ground[Axial]
+	default:
+		c += e.ground[d]
+	}
 	return c
 }

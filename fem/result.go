@@ -59,8 +59,9 @@ type Reaction struct {
 	Force   [3]float64 // axial N, transverse N, moment N·m (counter-clockwise)
 }
 
-// Equilibrium compares applied loads with reactions: Fx, Fy and the moment
-// about x = 0. Residual = Applied + Reactions, which must vanish.
+// Equilibrium compares applied loads with reactions, those of the supports
+// and of the foundations: Fx, Fy and the moment about x = 0. Residual =
+// Applied + Reactions, which must vanish.
 type Equilibrium struct {
 	Applied, Reactions, Residual [3]float64
 }

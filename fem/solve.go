@@ -13,7 +13,10 @@ type Solution struct {
 	Mesh         Mesh
 	Displacement [][3]float64 // per node of Mesh.X: u (m), w (m), θ (rad)
 	Reactions    []Reaction   // one per support, in the order of Model.Supports
-	StrainEnergy float64      // energy stored in the member (springs excluded), J
+	// Foundations are what each foundation carries, in the order of
+	// Model.Foundations.
+	Foundations  []FoundationReaction
+	StrainEnergy float64 // energy stored in the member (springs excluded), J
 	Equilibrium  Equilibrium
 	// Condition bounds how much round-off can grow in the results: relative
 	// errors up to about Condition·ε (ε = 2.2e-16) are possible in
@@ -42,6 +45,11 @@ type sectionData struct {
 	axialRigidity, flexuralRigidity float64 // EA (N), EI (N·m²)
 	area, secondMoment, fibre       float64 // A (m²), I (m⁴), c (m)
 	thermalStrain                   float64 // α·ΔT
+	// thermalCurvature is α·ΔT/depth of a temperature difference through
+	// the depth, 1/m: the free curvature, sagging positive (bottom warmer).
+	thermalCurvature float64
+	// shear is EI/(G·As), m², of a Timoshenko beam; 0 for Euler–Bernoulli.
+	shear float64
 }
 
 // conditionLimit is the condition number beyond which results are flagged:
@@ -140,12 +148,13 @@ func newStructure(p *Member, mesh Mesh) (*Structure, error) {
 	}
 	st.coarse = meshOn(m, st.keyX)
 	st.bar, st.beam = m.Formulations()
-	sections := sectionTable(m, 0)
+	sections := sectionTable(m, nil)
 	st.stretches = make([]elementData, len(st.coarse.Elements))
 	for j, e := range st.coarse.Elements {
 		st.stretches[j] = elementData{start: e.Start, length: e.End - e.Start, sectionData: sections[e.Segment]}
 	}
 	markReleases(m, st.keyX, st.stretches)
+	groundUnder(m, st.stretches)
 	// The key-point system of the bar is always linear: a quadratic bar's
 	// bubbles are orthogonal to it and solved element by element.
 	forms := []Formulation{barFormulation{LinearBar}, st.beam}
@@ -179,7 +188,7 @@ func (st *Structure) Solve(l *Loads) (*Solution, error) {
 	if len(l.Settlement) != len(m.Supports) || len(l.Keys) < 2 || math.Abs(l.Keys[len(l.Keys)-1]-m.Length()) > mergeTolerance*m.Length() {
 		return nil, fmt.Errorf("fem: the loads were gathered for another member or other supports: gather them on Structure.KeyPoints")
 	}
-	s := &Solution{Model: st.model, Mesh: mesh, sections: sectionTable(m, l.TemperatureChange), Condition: st.condition}
+	s := &Solution{Model: st.model, Mesh: mesh, sections: sectionTable(m, l), Condition: st.condition}
 	s.Warnings = append(s.Warnings, st.warnings...)
 	s.barOrder = m.Mesh.BarOrder
 	if s.barOrder == 0 {
@@ -224,7 +233,11 @@ func (st *Structure) Solve(l *Loads) (*Solution, error) {
 			s.releasedStart[keys[j]] = d.startRotation
 		}
 	}
+	for j := range stretches {
+		stretches[j].setGround(keyDisp[j], keyDisp[j+1])
+	}
 	staticReactions(m, st.keyX, stretches, keyPointLoads, keyDisp, s.Reactions)
+	s.Foundations = foundationReactions(m, stretches)
 	s.fields = make([]elementField, len(mesh.Elements))
 	energy, poison := refineAll(stretchRefiner{x: mesh.X, disp: s.Displacement, fields: s.fields, order: s.barOrder}, stretches, keys)
 	depth := 0
@@ -236,7 +249,7 @@ func (st *Structure) Solve(l *Loads) (*Solution, error) {
 		return nil, err
 	}
 	s.Condition += levelRoundOff * float64(depth)
-	s.Equilibrium = equilibrium(l.Resultant(), s.Reactions)
+	s.Equilibrium = equilibrium(l.Resultant(), s.Reactions, groundResultant(s.Foundations))
 	return s, nil
 }
 
@@ -261,9 +274,10 @@ func checkFinite(poison float64, s *Solution) error {
 // errNotFinite is the refusal of results that overflowed, by either solver.
 var errNotFinite = errors.New("the results are too large for floating point (a displacement, force, moment or stress is infinite or undefined): check the units and magnitudes of the section, material, springs and loads")
 
-// sectionTable gathers the section data of every segment under a uniform
-// change of temperature dT, K.
-func sectionTable(m *Model, dT float64) []sectionData {
+// sectionTable gathers the section data of every segment under the thermal
+// loads of l: its uniform change of temperature and the segments'
+// temperature differences through the depth.
+func sectionTable(m *Model, l *Loads) []sectionData {
 	out := make([]sectionData, len(m.Segments))
 	for i, seg := range m.Segments {
 		sec, mat := seg.Section, seg.Material
@@ -273,16 +287,23 @@ func sectionTable(m *Model, dT float64) []sectionData {
 			area:             sec.Area,
 			secondMoment:     sec.SecondMoment,
 			fibre:            sec.FibreDistance,
-			thermalStrain:    mat.ThermalExpansion * dT,
+			shear:            seg.shearFlexibility(),
+		}
+		if l != nil {
+			out[i].thermalStrain = mat.ThermalExpansion * l.TemperatureChange
+			if l.TemperatureDifference != nil {
+				out[i].thermalCurvature = mat.ThermalExpansion * l.TemperatureDifference[i] / sec.depth()
+			}
 		}
 	}
 	return out
 }
 
 // equilibrium compares the resultant of the applied loads (Loads.Resultant:
-// forces along x and y, moment about x = 0) with that of the reactions.
-func equilibrium(applied [3]float64, reactions []Reaction) Equilibrium {
-	q := Equilibrium{Applied: applied}
+// forces along x and y, moment about x = 0) with that of the reactions of
+// the supports and of the foundations (ground, in the same terms).
+func equilibrium(applied [3]float64, reactions []Reaction, ground [3]float64) Equilibrium {
+	q := Equilibrium{Applied: applied, Reactions: ground}
 	for _, r := range reactions {
 		q.Reactions[0] += r.Force[0]
 		q.Reactions[1] += r.Force[1]

@@ -1,60 +1,118 @@
 package fem
 
-import "math"
+import (
+	"math"
+	"sort"
+)
+
+// A Summary leads with the exact solution of the model (the headline
+// values) and gives the finite element value beside each: the exact
+// solution is free of discretisation error, and the finite element one is
+// what the mesh gives, so the difference between the two says how far the
+// mesh is from the truth. Without an exact solution (it could not be
+// found) the headline values are the finite element ones, and Exact says
+// so.
 
 // Extreme is the largest and smallest value of one result quantity along the
-// member and where each occurs.
+// member and where each occurs: the headline values (exact when the summary
+// has an exact solution) and the finite element ones beside them.
 type Extreme struct {
-	Quantity Quantity `json:"quantity"` // written as its Fields name, e.g. "BendingMoment"
-	Unit     string   `json:"unit"`     // SI unit of Max and Min
-	Max      float64  `json:"max"`
-	XMax     float64  `json:"x_max"` // m
-	Min      float64  `json:"min"`
-	XMin     float64  `json:"x_min"` // m
+	Quantity Quantity
+	Unit     string // SI unit of the values
+	// Max and Min are the headline extremes, at XMax and XMin (m).
+	Max, XMax, Min, XMin float64
+	// FEMax and FEMin are the finite element extremes, at FEXMax and FEXMin (m).
+	FEMax, FEXMax, FEMin, FEXMin float64
+	// Accuracy is how far the finite element extremes are from the exact
+	// ones: the larger of |FEMax − Max| and |FEMin − Min| over the field's
+	// largest magnitude (fieldScale: its own, or the size of its kind where
+	// it is zero to round-off); 0 without an exact solution.
+	Accuracy float64
 }
 
 // MeshSummary describes the discretisation a solution was computed on.
 type MeshSummary struct {
-	Elements  int     `json:"elements"`
-	Nodes     int     `json:"nodes"`
-	BarOrder  int     `json:"bar_order"`
-	Condition float64 `json:"condition_estimate"`
+	Elements  int
+	Nodes     int
+	BarOrder  int
+	Condition float64 // estimated condition number of the key-point systems
+	// Automatic says Stave chose the mesh (the default mesh rule, for
+	// MeshAccuracy), and Note how, in words.
+	Automatic bool
+	Note      string
 }
 
 // EquilibriumSummary is Equilibrium with named components for reports.
 type EquilibriumSummary struct {
-	Applied   Components `json:"applied"`
-	Reactions Components `json:"reactions"`
-	Residual  Components `json:"residual"`
+	Applied   Components
+	Reactions Components
+	Residual  Components
 	// Relative is the largest residual component divided by the largest applied
 	// or reaction component of the same kind; it should be near round-off.
-	Relative float64 `json:"relative"`
+	Relative float64
 }
 
 // Components are the three resultants of a force system: forces in N and the
 // moment about x = 0 in N·m.
 type Components struct {
-	Axial      float64 `json:"axial"`
-	Transverse float64 `json:"transverse"`
-	Moment     float64 `json:"moment"`
+	Axial      float64 // N
+	Transverse float64 // N
+	Moment     float64 // N·m
 }
 
-// ReactionSummary is one support's reaction for reports.
+// ReactionSummary is one support's reaction for reports: the headline
+// components and the finite element ones.
 type ReactionSummary struct {
-	Support int     `json:"support"` // 1-based, as users count
-	Kind    string  `json:"kind"`
-	X       float64 `json:"x"`
+	Support int    // 1-based, as users count
+	Kind    string // the support's kind, as files name it
+	X       float64
+	// Holds says which components (by Dof) the support holds, rigidly or by
+	// a spring; the others are zero and reports leave them out.
+	Holds [3]bool
 	Components
+	FE Components
+}
+
+// SupportActions are the shear force and the bending moment just left ([0])
+// and just right ([1]) of a support inside the member, where they jump or
+// peak: the headline values and the finite element ones.
+type SupportActions struct {
+	Support           int // 1-based
+	Kind              string
+	X                 float64    // m
+	Shear, Moment     [2]float64 // N, N·m
+	FEShear, FEMoment [2]float64
 }
 
 // Summary gathers what an engineer reads first from a solution.
 type Summary struct {
-	Reactions   []ReactionSummary  `json:"reactions"`
-	Extremes    []Extreme          `json:"extremes"`
-	Equilibrium EquilibriumSummary `json:"equilibrium"`
-	ExactError  *ErrorNorms        `json:"exact_error"` // nil when the exact solution is not available
-	Mesh        MeshSummary        `json:"mesh"`
-	Warnings    []string           `json:"warnings"`
+	// Exact says the headline values are the exact solution's; false when
+	// there is none, and then they are the finite element ones.
+	Exact     bool
+	Reactions []ReactionSummary
+	Extremes  []Extreme
+	// Supports are the actions at every support inside the member, in order along it.
+	Supports []SupportActions
+	// Equilibrium is the balance of the headline reactions with the loads,
+	// FEEquilibrium that of the finite element reactions.
+	Equilibrium, FEEquilibrium EquilibriumSummary
+	ExactError                 *ErrorNorms // nil when the exact solution is not available
+	Mesh                       MeshSummary
+}
+
+// Worst is the extreme whose finite element value is furthest from the
+// exact one (the largest Accuracy); false without an exact solution.
+func (s *Summary) Worst() (Extreme, bool) {
+	if !s.Exact || len(s.Extremes) == 0 {
+		return Extreme{}, false
+	}
+	worst := s.Extremes[0]
+	for _, e := range s.Extremes[1:] {
+		if e.Accuracy > worst.Accuracy {
+			worst = e
+		}
+	}
+	return worst, true
 }
 
 // extremes gathers the largest and smallest value of every quantity along
@@ -153,17 +211,85 @@ func (x *extremes) Join(later Visitor) {
 	}
 }
 
-// list is the extremes in report order; all zero when no element was seen.
+// list is the extremes in report order, as both headline and finite
+// element values; all zero when no element was seen.
 func (x *extremes) list() []Extreme {
 	out := make([]Extreme, quantityCount)
 	for i, q := range Quantities() {
-		out[i] = Extreme{Quantity: q, Unit: q.Info().SI}
+		e := Extreme{Quantity: q, Unit: q.Info().SI}
 		if x.seen {
-			out[i].Max, out[i].XMax = x.hi[q].Value, x.hi[q].X
-			out[i].Min, out[i].XMin = x.lo[q].Value, x.lo[q].X
+			e.FEMax, e.FEXMax = x.hi[q].Value, x.hi[q].X
+			e.FEMin, e.FEXMin = x.lo[q].Value, x.lo[q].X
 		}
+		e.Max, e.XMax, e.Min, e.XMin = e.FEMax, e.FEXMax, e.FEMin, e.FEXMin
+		out[i] = e
 	}
 	return out
+}
+
+// exactExtremes are the extremes of e, stretch by stretch in closed form,
+// on one reused interval.
+func exactExtremes(e *Exact) *extremes {
+	x := newExtremes()
+	var v Interval
+	for j := range e.stretches {
+		st := &e.stretches[j]
+		st.interval(0, 1, st.start, st.length, &v)
+		x.seen = true
+		for q := range Quantity(quantityCount) {
+			lo, hi := v.Range(q)
+			x.take(q, lo, hi)
+		}
+	}
+	return x
+}
+
+// withExact makes the exact extremes ex the headline values of list and
+// measures the finite element ones against them.
+func withExact(list []Extreme, ex *extremes, L float64) {
+	exact := ex.list()
+	var largest [quantityCount]float64
+	for i, e := range exact {
+		largest[i] = math.Max(math.Abs(e.FEMax), math.Abs(e.FEMin))
+	}
+	for i := range list {
+		e, x := &list[i], &exact[i]
+		e.Max, e.XMax, e.Min, e.XMin = x.FEMax, x.FEXMax, x.FEMin, x.FEXMin
+		off := math.Max(math.Abs(e.FEMax-e.Max), math.Abs(e.FEMin-e.Min))
+		if scale := fieldScale(e.Quantity, &largest, L); scale > 0 {
+			e.Accuracy = off / scale
+		}
+	}
+}
+
+// fieldScale is the size quantity q is measured against: its largest
+// magnitude, from largest (each quantity's largest magnitude, in SI), unless
+// that is negligible against the other fields of its kind — an axial force
+// in a beam, a moment in a heated bar — and then the size of that kind:
+// displacements max(|u|, |w|, |θ|·L), forces max(|N|, |V|, |M|/L) (L the
+// member's length, m), stresses the largest of the three. So a field that
+// is zero to round-off is not measured against its own round-off.
+func fieldScale(q Quantity, largest *[quantityCount]float64, L float64) float64 {
+	own := largest[q]
+	var kind float64 // the size of q's kind, in q's unit
+	switch q {
+	case QAxialDisplacement, QDeflection, QRotation:
+		kind = max(largest[QAxialDisplacement], largest[QDeflection], largest[QRotation]*L)
+		if q == QRotation {
+			kind /= L
+		}
+	case QAxialForce, QShearForce, QBendingMoment:
+		kind = max(largest[QAxialForce], largest[QShearForce], largest[QBendingMoment]/L)
+		if q == QBendingMoment {
+			kind *= L
+		}
+	default:
+		kind = max(largest[QAxialStress], largest[QBendingStress], largest[QCombinedStress])
+	}
+	if own > negligible*kind {
+		return own
+	}
+	return kind
 }
 
 // Summarizer gathers a Summary in a walk over a solution (a Visitor): the
@@ -172,13 +298,18 @@ func (x *extremes) list() []Extreme {
 // consumers as well passes one to Walk beside them.
 type Summarizer struct {
 	solution   *Solution
+	exact      *Exact // nil without an exact solution
 	extremes   *extremes
 	comparison *Comparison // nil without an exact solution
 }
 
 // NewSummarizer is an empty Summarizer of s, compared with e when e is not nil.
 func NewSummarizer(s *Solution, e *Exact) *Summarizer {
-	return &Summarizer{solution: s, extremes: newExtremes(), comparison: NewComparison(s, e)}
+	z := &Summarizer{solution: s, extremes: newExtremes(), comparison: NewComparison(s, e)}
+	if e != nil && len(e.stretches) > 0 {
+		z.exact = e
+	}
+	return z
 }
 
 func (z *Summarizer) Visit(v *ElementView) {
@@ -189,7 +320,7 @@ func (z *Summarizer) Visit(v *ElementView) {
 }
 
 func (z *Summarizer) Fork() Visitor {
-	y := &Summarizer{solution: z.solution, extremes: newExtremes()}
+	y := &Summarizer{solution: z.solution, exact: z.exact, extremes: newExtremes()}
 	if z.comparison != nil {
 		y.comparison = z.comparison.Fork().(*Comparison)
 	}
@@ -208,36 +339,55 @@ func (z *Summarizer) Join(later Visitor) {
 // nil when there is none.
 func (z *Summarizer) Comparison() *Comparison { return z.comparison }
 
-// Summarize collects reactions, extremes with positions, equilibrium, mesh
-// size and, when e is not nil, the error against the exact solution, in one
-// walk over the elements.
+// Summarize collects reactions, extremes with positions, the actions at the
+// supports inside the member, equilibrium, mesh size and, when e is not
+// nil, the error against the exact solution, in one walk over the
+// elements; with e the headline values are e's, the finite element ones
+// beside them.
 func Summarize(s *Solution, e *Exact) Summary {
 	z := NewSummarizer(s, e)
 	Walk(s, e, z)
 	return z.Summary()
 }
 
-// Summary is what the walk gathered, with the reactions, equilibrium, mesh
-// and warnings of the solution.
+// Summary is what the walk gathered, with the reactions, the actions at
+// the supports inside the member, equilibrium and mesh of the solution; the
+// headline values are the exact solution's when the summarizer has one.
 func (z *Summarizer) Summary() Summary {
 	s := z.solution
-	var sum Summary
-	for _, r := range s.Reactions {
-		kind := ""
+	ex := z.exact
+	sum := Summary{Exact: ex != nil}
+	var exactReactions []Reaction
+	if ex != nil {
+		exactReactions = ex.reactions
+	}
+	sum.Reactions = make([]ReactionSummary, 0, len(s.Reactions))
+	for i, r := range s.Reactions {
+		rs := ReactionSummary{Support: r.Support + 1, X: r.X, FE: components(r.Force)}
 		if r.Support >= 0 && r.Support < len(s.Model.Supports) {
-			kind = s.Model.Supports[r.Support].Kind.String()
+			sup := s.Model.Supports[r.Support]
+			rs.Kind = sup.Kind.String()
+			for d := range rs.Holds {
+				rs.Holds[d] = sup.Holds(Dof(d))
+			}
 		}
-		sum.Reactions = append(sum.Reactions, ReactionSummary{
-			Support: r.Support + 1, Kind: kind, X: r.X, Components: components(r.Force),
-		})
+		rs.Components = rs.FE
+		if i < len(exactReactions) {
+			rs.Components = components(exactReactions[i].Force)
+		}
+		sum.Reactions = append(sum.Reactions, rs)
 	}
 	sum.Extremes = z.extremes.list()
-	eq := s.Equilibrium
-	sum.Equilibrium = EquilibriumSummary{
-		Applied:   components(eq.Applied),
-		Reactions: components(eq.Reactions),
-		Residual:  components(eq.Residual),
-		Relative:  relativeResidual(eq),
+	L := s.Model.Length()
+	if ex != nil {
+		withExact(sum.Extremes, exactExtremes(ex), L)
+	}
+	sum.Supports = supportActions(s, ex)
+	applied := s.Equilibrium.Applied
+	sum.FEEquilibrium = equilibriumSummary(s.Equilibrium)
+	sum.Equilibrium = sum.FEEquilibrium
+	if ex != nil {
+		sum.Equilibrium = equilibriumSummary(ex.Balance(applied))
 	}
 	if z.comparison != nil {
 		norms := z.comparison.Norms()
@@ -252,9 +402,45 @@ func (z *Summarizer) Summary() Summary {
 		Nodes:     len(s.Mesh.X),
 		BarOrder:  order,
 		Condition: s.Condition,
+		Automatic: s.Mesh.Automatic,
+		Note:      s.Mesh.Note,
 	}
-	sum.Warnings = append(sum.Warnings, s.Warnings...)
 	return sum
+}
+
+// supportActions are the shear force and bending moment on both sides of
+// every support inside the member (not at its ends), in order along it:
+// from e when not nil, with the finite element values of s beside.
+func supportActions(s *Solution, e *Exact) []SupportActions {
+	L := s.Model.Length()
+	out := make([]SupportActions, 0, len(s.Model.Supports))
+	for i, sup := range s.Model.Supports {
+		if sup.X <= mergeTolerance*L || sup.X >= L*(1-mergeTolerance) {
+			continue
+		}
+		a := SupportActions{Support: i + 1, Kind: sup.Kind.String(), X: sup.X}
+		for k, side := range [2]Side{Left, Right} {
+			f := s.At(sup.X, side)
+			a.FEShear[k], a.FEMoment[k] = f.ShearForce, f.BendingMoment
+			a.Shear[k], a.Moment[k] = a.FEShear[k], a.FEMoment[k]
+			if e != nil {
+				g := e.At(sup.X, side)
+				a.Shear[k], a.Moment[k] = g.ShearForce, g.BendingMoment
+			}
+		}
+		out = append(out, a)
+	}
+	sort.SliceStable(out, func(i, j int) bool { return out[i].X < out[j].X })
+	return out
+}
+
+func equilibriumSummary(eq Equilibrium) EquilibriumSummary {
+	return EquilibriumSummary{
+		Applied:   components(eq.Applied),
+		Reactions: components(eq.Reactions),
+		Residual:  components(eq.Residual),
+		Relative:  relativeResidual(eq),
+	}
 }
 
 func components(v [3]float64) Components {
@@ -273,4 +459,11 @@ func relativeResidual(eq Equilibrium) float64 {
 		worst = math.Max(worst, math.Abs(eq.Residual[i])/scale)
 	}
 	return worst
+}
+
+// Balance is the equilibrium of the exact reactions with applied, the
+// resultant of the loads (Equilibrium.Applied of a solution of the same
+// model).
+func (e *Exact) Balance(applied [3]float64) Equilibrium {
+	return equilibrium(applied, e.reactions, groundResultant(e.Foundations()))
 }

@@ -84,3 +84,165 @@ func TestDeflectionExtremeAtZeroSlope(t *testing.T) {
 		}
 	}
 }
+
+// byQuantity indexes the extremes of a summary.
+func byQuantity(sum Summary) map[Quantity]Extreme {
+	out := map[Quantity]Extreme{}
+	for _, e := range sum.Extremes {
+		out[e.Quantity] = e
+	}
+	return out
+}
+
+// The headline values of a summary are the exact solution's, and on the
+// default mesh every finite element extreme is within MeshAccuracy of them.
+// Each row is a handbook beam; w is the magnitude of the downward uniform
+// load, l a span. Sources (from memory): Gere & Goodno, Mechanics of
+// Materials, Appendix D, and the AISC Steel Construction Manual, beam
+// diagrams and formulas (simple beam, cantilever, propped cantilever and
+// continuous beam of two equal spans under a uniform load).
+func TestSummaryHeadlineOnTheDefaultMesh(t *testing.T) {
+	const w, l, E, I = 10e3, 4.0, 200e9, 8e-6
+	beam := func(L float64, supports ...Support) *Model {
+		return &Model{
+			Segments: []Segment{{Start: 0, End: L, Section: Section{Area: 4e-3, SecondMoment: I, FibreDistance: 0.1},
+				Material: Material{Elastic: E}}},
+			Supports:        supports,
+			DistributedLoad: []DistributedLoad{uniformLoad(Transverse, 0, L, -w, -w)},
+		}
+	}
+	type value struct {
+		q         Quantity
+		max       bool // the largest value, else the smallest
+		want, x   float64
+		checkTheX bool
+	}
+	cases := []struct {
+		name      string
+		model     *Model
+		reactions []float64 // transverse, by support
+		moments   []float64 // reaction moments, by support
+		extremes  []value
+		inside    [][2]float64 // V just left and right of each support inside
+		insideM   []float64    // M there
+	}{
+		{"simple beam", beam(l, Support{X: 0, Kind: Pinned}, Support{X: l, Kind: Roller}),
+			[]float64{w * l / 2, w * l / 2}, []float64{0, 0},
+			[]value{{QBendingMoment, true, w * l * l / 8, l / 2, true}, {QDeflection, false, -5 * w * l * l * l * l / (384 * E * I), l / 2, true},
+				{QShearForce, true, w * l / 2, 0, true}, {QShearForce, false, -w * l / 2, l, true}},
+			nil, nil},
+		{"cantilever", beam(l, Support{X: 0, Kind: Fixed}),
+			[]float64{w * l}, []float64{w * l * l / 2},
+			[]value{{QBendingMoment, false, -w * l * l / 2, 0, true}, {QDeflection, false, -w * l * l * l * l / (8 * E * I), l, true}},
+			nil, nil},
+		{"propped cantilever", beam(l, Support{X: 0, Kind: Fixed}, Support{X: l, Kind: Roller}),
+			[]float64{5 * w * l / 8, 3 * w * l / 8}, []float64{w * l * l / 8, 0},
+			[]value{{QBendingMoment, false, -w * l * l / 8, 0, true}, {QBendingMoment, true, 9 * w * l * l / 128, 5 * l / 8, true}},
+			nil, nil},
+		{"two equal spans", beam(2*l, Support{X: 0, Kind: Pinned}, Support{X: l, Kind: Roller}, Support{X: 2 * l, Kind: Roller}),
+			[]float64{3 * w * l / 8, 10 * w * l / 8, 3 * w * l / 8}, []float64{0, 0, 0},
+			[]value{{QBendingMoment, false, -w * l * l / 8, l, true}, {QBendingMoment, true, 9 * w * l * l / 128, 3 * l / 8, false}},
+			[][2]float64{{-5 * w * l / 8, 5 * w * l / 8}}, []float64{-w * l * l / 8}},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			s, e := solveBoth(t, c.model)
+			if !s.Mesh.Automatic || s.Mesh.Note == "" {
+				t.Fatalf("the model leaves the mesh to Stave, but the mesh says automatic %v, note %q", s.Mesh.Automatic, s.Mesh.Note)
+			}
+			sum := Summarize(s, e)
+			if !sum.Exact || !sum.Mesh.Automatic || sum.Mesh.Note != s.Mesh.Note {
+				t.Errorf("summary: exact %v, mesh %+v", sum.Exact, sum.Mesh)
+			}
+			scale := w * c.model.Length()
+			for i, r := range sum.Reactions {
+				if math.Abs(r.Transverse-c.reactions[i]) > 1e-9*scale || math.Abs(r.Moment-c.moments[i]) > 1e-9*scale*l {
+					t.Errorf("support %d: exact reaction %g N, %g N·m; want %g, %g", r.Support, r.Transverse, r.Moment, c.reactions[i], c.moments[i])
+				}
+				if math.Abs(r.FE.Transverse-c.reactions[i]) > 1e-9*scale {
+					t.Errorf("support %d: finite element reaction %g N, want %g", r.Support, r.FE.Transverse, c.reactions[i])
+				}
+				if r.Holds[Axial] != (r.Kind == "pinned" || r.Kind == "fixed") || !r.Holds[Transverse] || r.Holds[Rotation] != (r.Kind == "fixed") {
+					t.Errorf("support %d (%s) holds %v", r.Support, r.Kind, r.Holds)
+				}
+			}
+			ex := byQuantity(sum)
+			for _, v := range c.extremes {
+				x := ex[v.q]
+				got, at, fe := x.Min, x.XMin, x.FEMin
+				if v.max {
+					got, at, fe = x.Max, x.XMax, x.FEMax
+				}
+				if relErr(got, v.want) > 1e-9 || v.checkTheX && math.Abs(at-v.x) > 1e-9*l {
+					t.Errorf("%v: exact %g at %g, want %g at %g", v.q, got, at, v.want, v.x)
+				}
+				if relErr(fe, v.want) > MeshAccuracy {
+					t.Errorf("%v: finite element %g, more than %g from %g", v.q, fe, MeshAccuracy, v.want)
+				}
+			}
+			for _, x := range sum.Extremes {
+				if x.Accuracy > MeshAccuracy {
+					t.Errorf("%v: the default mesh's extremes are off by %.3g, above %g", x.Quantity, x.Accuracy, MeshAccuracy)
+				}
+			}
+			if len(sum.Supports) != len(c.inside) {
+				t.Fatalf("%d supports inside the member, want %d", len(sum.Supports), len(c.inside))
+			}
+			for i, a := range sum.Supports {
+				for k := range 2 {
+					if math.Abs(a.Shear[k]-c.inside[i][k]) > 1e-9*scale || math.Abs(a.FEShear[k]-c.inside[i][k]) > MeshAccuracy*scale {
+						t.Errorf("support %d, side %d: V exact %g, FE %g; want %g", a.Support, k, a.Shear[k], a.FEShear[k], c.inside[i][k])
+					}
+					if math.Abs(a.Moment[k]-c.insideM[i]) > 1e-9*scale*l || math.Abs(a.FEMoment[k]-c.insideM[i]) > MeshAccuracy*math.Abs(c.insideM[i]) {
+						t.Errorf("support %d, side %d: M exact %g, FE %g; want %g", a.Support, k, a.Moment[k], a.FEMoment[k], c.insideM[i])
+					}
+				}
+			}
+			if sum.Equilibrium.Relative > 1e-12 || sum.FEEquilibrium.Relative > 1e-12 {
+				t.Errorf("equilibrium: exact %g, FE %g", sum.Equilibrium.Relative, sum.FEEquilibrium.Relative)
+			}
+		})
+	}
+}
+
+// A simple beam on one element, set coarse on purpose: the headline values
+// stay exact (M = wL²/8 = 20 kN·m at midspan, V = wL/2 = 20 kN at the ends;
+// Gere & Goodno, Mechanics of Materials, Appendix D, from memory), the
+// finite element ones beside them are the element's (its moment is the end
+// moment wL²/12 = 13.33 kN·m of the consistent load, constant, so its shear
+// is zero), and the accuracy says how far apart: for the moment 2/3, its
+// smallest value (exact 0 at the supports, FE wL²/12) being further off
+// than its largest (1/3), and all of it for the shear. The axial force is zero in both and reads 0, not a
+// ratio of round-off.
+func TestSummaryCoarseMesh(t *testing.T) {
+	const w, L = 10e3, 4.0
+	m := &Model{
+		Segments: []Segment{{Start: 0, End: L, Section: Section{Area: 4e-3, SecondMoment: 8e-6, FibreDistance: 0.1},
+			Material: Material{Elastic: 200e9}}},
+		Supports:        []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+		DistributedLoad: []DistributedLoad{uniformLoad(Transverse, 0, L, -w, -w)},
+		Mesh:            MeshSettings{Elements: 1},
+	}
+	s, e := solveBoth(t, m)
+	sum := Summarize(s, e)
+	if sum.Mesh.Automatic {
+		t.Error("a mesh set in the model is reported as Stave's choice")
+	}
+	x := byQuantity(sum)
+	moment, shear := x[QBendingMoment], x[QShearForce]
+	if relErr(moment.Max, w*L*L/8) > 1e-12 || math.Abs(moment.XMax-L/2) > 1e-12 || relErr(moment.FEMax, w*L*L/12) > 1e-12 {
+		t.Errorf("moment: exact %g at %g, FE %g; want %g at %g and %g", moment.Max, moment.XMax, moment.FEMax, w*L*L/8, L/2, w*L*L/12)
+	}
+	if math.Abs(moment.Min) > 1e-12*w*L*L || relErr(moment.FEMin, w*L*L/12) > 1e-12 || math.Abs(moment.Accuracy-2.0/3) > 1e-12 {
+		t.Errorf("moment: smallest exact %g, FE %g, accuracy %g; want 0, %g and 2/3", moment.Min, moment.FEMin, moment.Accuracy, w*L*L/12)
+	}
+	if relErr(shear.Max, w*L/2) > 1e-12 || math.Abs(shear.Accuracy-1) > 1e-12 {
+		t.Errorf("shear: exact %g, accuracy %g; want %g and 1", shear.Max, shear.Accuracy, w*L/2)
+	}
+	if a := x[QAxialForce].Accuracy; a != 0 {
+		t.Errorf("axial force, zero in both solutions: accuracy %g, want 0", a)
+	}
+	if worst, ok := sum.Worst(); !ok || worst.Quantity != QShearForce {
+		t.Errorf("worst extreme %v (%v), want the shear force", worst.Quantity, ok)
+	}
+}

@@ -105,6 +105,7 @@ func (m *Model) Validate() error {
 	lengthKnown := isFinite(L) && L > 0
 	v.supports(m.Supports, lengthKnown)
 	v.hinges(m, lengthKnown)
+	v.foundations(m, lengthKnown)
 	v.pointLoads(m.PointLoads, lengthKnown)
 	v.distributedLoads(m.DistributedLoad, lengthKnown)
 	for i, g := range m.Gravity {
@@ -127,6 +128,11 @@ func (m *Model) Validate() error {
 // only.
 func (v *validator) axialOnly(m *Model) {
 	v.axialOnlyLoads(m.PointLoads, m.DistributedLoad)
+	for i, s := range m.Segments {
+		if s.TemperatureDifference != 0 {
+			v.add(Place{Item: Item{Kind: SegmentItem, Index: i}, Property: TemperatureDifferenceProperty}, fmt.Sprintf("segment %d is warmer on one face than the other, which bends it, but %s: remove the temperature difference, or let the member bend", i+1, axialOnlyWhy))
+		}
+	}
 	if m.Gravity[1] != 0 {
 		for _, s := range m.Segments {
 			if s.Material.Density > 0 {
@@ -211,7 +217,7 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 		default:
 			names[strings.ToLower(lc.Name)] = c
 		}
-		if len(lc.PointLoads) == 0 && len(lc.DistributedLoad) == 0 && !lc.SelfWeight && lc.TemperatureChange == 0 && !lc.Settlements {
+		if len(lc.PointLoads) == 0 && len(lc.DistributedLoad) == 0 && !lc.SelfWeight && lc.TemperatureChange == 0 && !lc.Settlements && !lc.ThermalGradient {
 			v.add(Place{Item: it}, fmt.Sprintf("load case %q is empty: add loads to it, or delete it", lc.Name))
 		}
 		if !isFinite(lc.TemperatureChange) {
@@ -326,6 +332,14 @@ func (v *validator) segments(segs []Segment) {
 		if a := s.Material.ThermalExpansion; !isFinite(a) {
 			v.add(at(ThermalExpansionProperty), fmt.Sprintf("segment %d: the thermal expansion coefficient is %v: enter a finite value in 1/K", i+1, a))
 		}
+		v.property(at(DepthProperty), "the depth", s.Section.Depth, "m", true)
+		v.shearDeformation(i, s)
+		switch dt := s.TemperatureDifference; {
+		case !isFinite(dt):
+			v.add(at(TemperatureDifferenceProperty), fmt.Sprintf("segment %d: the temperature difference through the depth is %v: enter a finite value in K", i+1, dt))
+		case dt != 0 && !(s.Section.depth() > 0):
+			v.add(at(DepthProperty), fmt.Sprintf("segment %d has a temperature difference through its depth but no depth to spread it over: enter the section's depth (or its extreme fibre distance, for a symmetric section)", i+1))
+		}
 		v.segmentStiffness(it, s)
 	}
 }
@@ -425,6 +439,28 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 	}
 }
 
+// shearDeformation checks what a Timoshenko segment needs: a shear area
+// (given, or a coefficient of the area) and a shear modulus (given, or from
+// Poisson's ratio).
+func (v *validator) shearDeformation(i int, s Segment) {
+	at := func(p Property) Place { return Place{Item: Item{Kind: SegmentItem, Index: i}, Property: p} }
+	v.property(at(ShearAreaProperty), "the shear area", s.Section.ShearArea, "m²", true)
+	v.property(at(ShearCoefficientProperty), "the shear coefficient", s.Section.ShearCoefficient, "", true)
+	v.property(at(ShearModulusProperty), "the shear modulus", s.Material.ShearModulus, "Pa", true)
+	if nu := s.Material.Poisson; !isFinite(nu) || nu <= -1 || nu > 0.5 {
+		v.add(at(PoissonProperty), fmt.Sprintf("segment %d: Poisson's ratio is %s: enter a value above −1 and at most 0.5 (about 0.3 for steel)", i+1, fmtNumber(nu)))
+	}
+	if !s.ShearDeformation {
+		return
+	}
+	if !(s.Section.shearArea() > 0) {
+		v.add(at(ShearAreaProperty), fmt.Sprintf("segment %d deforms in shear but has no shear area: give the shear area, or the shear coefficient (5/6 for a solid rectangle)", i+1))
+	}
+	if !(s.Material.shearModulus() > 0) {
+		v.add(at(ShearModulusProperty), fmt.Sprintf("segment %d deforms in shear but has no shear modulus: give G, or Poisson's ratio for G = E/(2(1+ν))", i+1))
+	}
+}
+
 // hinges checks the moment releases: inside the member, one per point, not
 // where a support holds the rotation (which side would it hold?), a
 // spring stiffness in range, and not on an axial-only member.
@@ -461,6 +497,61 @@ func (v *validator) hinges(m *Model, lengthKnown bool) {
 		}
 		if m.AxialOnly {
 			v.add(at, fmt.Sprintf("hinge %d releases the bending moment, but %s: remove the hinge, or let the member bend", i+1, axialOnlyWhy))
+		}
+	}
+}
+
+// foundations checks the elastic foundations: a stretch of the member,
+// moduli in range with at least one of them, nothing across an axial-only
+// member, and none under a segment with shear deformation or with quadratic
+// bars along it (neither element takes a foundation yet).
+func (v *validator) foundations(m *Model, lengthKnown bool) {
+	for i, f := range m.Foundations {
+		it := Item{Kind: FoundationItem, Index: i}
+		at := func(p Property) Place { return Place{Item: it, Property: p} }
+		ends := v.position(at(StartProperty), "its start", f.Start, lengthKnown)
+		ends = v.position(at(EndProperty), "its end", f.End, lengthKnown) && ends
+		if ends && f.End-f.Start <= v.tol {
+			a, b := fmtPair(f.Start, f.End)
+			v.add(at(EndProperty), fmt.Sprintf("foundation %d runs from x = %s m to x = %s m: its end must lie beyond its start", i+1, a, b))
+			ends = false
+		}
+		moduli := [2]struct {
+			property Property
+			name     string
+			k        float64
+		}{{ModulusProperty, "the modulus across the member", f.Modulus}, {AxialModulusProperty, "the axial modulus", f.AxialModulus}}
+		usable := true
+		for _, k := range moduli {
+			switch {
+			case !isFinite(k.k):
+				v.add(at(k.property), fmt.Sprintf("foundation %d: %s is %v: enter a finite value in N/m² (force per metre of member per metre of motion), or 0", i+1, k.name, k.k))
+				usable = false
+			case k.k < 0:
+				v.add(at(k.property), fmt.Sprintf("foundation %d: %s is %s N/m²: it must not be negative (ground pushes back, it never pulls the member on)", i+1, k.name, fmtNumber(k.k)))
+				usable = false
+			case k.k > 0 && (k.k < minStiffness || k.k > maxStiffness):
+				v.add(at(k.property), fmt.Sprintf("foundation %d: %s is %s N/m², outside the range the solvers work in (%s to %s): check the value and its units", i+1, k.name, fmtNumber(k.k), fmtNumber(minStiffness), fmtNumber(maxStiffness)))
+				usable = false
+			}
+		}
+		if usable && f.Modulus == 0 && f.AxialModulus == 0 {
+			v.add(at(ModulusProperty), fmt.Sprintf("foundation %d has no stiffness across or along the member: give a modulus, or remove it", i+1))
+		}
+		if m.AxialOnly && f.Modulus > 0 {
+			v.add(at(ModulusProperty), fmt.Sprintf("foundation %d holds the member across, but %s: set its modulus across to 0, or let the member bend", i+1, axialOnlyWhy))
+		}
+		if !ends {
+			continue
+		}
+		if f.AxialModulus > 0 && m.Mesh.BarOrder == QuadraticBar {
+			v.add(Place{Item: meshItem, Property: BarOrderProperty}, fmt.Sprintf("foundation %d holds the member along its axis, which the quadratic bar element does not take yet: choose linear bars", i+1))
+		}
+		for j, seg := range m.Segments {
+			if f.Modulus > 0 && seg.ShearDeformation && seg.Start < f.End-v.tol && seg.End > f.Start+v.tol {
+				a, b := fmtPair(max(seg.Start, f.Start), min(seg.End, f.End))
+				v.add(at(ModulusProperty), fmt.Sprintf("foundation %d lies under segment %d from x = %s m to %s m, which deforms in shear: a Timoshenko beam on a foundation is not solved yet; turn the segment's shear deformation off there or end the foundation before it", i+1, j+1, a, b))
+			}
 		}
 	}
 }
@@ -560,6 +651,17 @@ func (v *validator) memory(m *Model) {
 	elements := float64(max(m.Mesh.Elements, 0)) + keys
 	if h := m.Mesh.MaxElementLength; isFinite(h) && h > 0 {
 		elements += math.Ceil(v.L / h) // +Inf when L/h overflows
+	}
+	// On a foundation every node is a key point of the factorized system
+	// (hierarchy.go): count the elements there as key points too.
+	covered := 0.0
+	for _, f := range m.Foundations {
+		if isFinite(f.Start) && isFinite(f.End) {
+			covered += max(0, min(f.End, v.L)-max(f.Start, 0))
+		}
+	}
+	if covered > 0 {
+		keys += elements * min(1, covered/v.L)
 	}
 	sets := float64(m.LoadSetCount())
 	elementBytes, keyBytes := sets*elements*bytesPerElement, sets*keys*bytesPerKeyPoint

@@ -31,19 +31,19 @@ type Interval struct {
 	// asked for unless endsKnown.
 	ends      [2]Fields
 	endsKnown bool
-	poly      [polynomialQuantities]Polynomial
-	degree    [polynomialQuantities]int
+	// oneFibre says the combined stress is one linear polynomial on the
+	// interval (see oneFibre); false where it may not be.
+	oneFibre bool
+	poly     [polynomialQuantities]Polynomial
+	degree   [polynomialQuantities]int
 	// solution and element name the element of a finite element solution
 	// the interval is, whose own interpolation At evaluates; nil for the
 	// exact solution.
 	solution *Solution
 	element  int
-	// size is, for the exact solution, the sums of the magnitudes of the
-	// stretch's coefficients of u and w (m): the scale of their round-off.
-	size [2]float64
-	// oneFibre says the combined stress is one linear polynomial on the
-	// interval (see oneFibre); false where it may not be.
-	oneFibre bool
+	// closed reads the exact solution in closed form where it is no
+	// polynomial (closedform.go).
+	closed closedInterval
 	// ranges are the results of Range, taken once per interval: known
 	// holds a bit per quantity whose range is there.
 	ranges [quantityCount][2]extremum
@@ -57,7 +57,7 @@ const polynomialQuantities = int(QCombinedStress)
 // Polynomial is quantity q on the interval as a polynomial in ξ, in SI
 // units; false for the combined stress, which is not one.
 func (v *Interval) Polynomial(q Quantity) (Polynomial, bool) {
-	if q < 0 || int(q) >= polynomialQuantities {
+	if q < 0 || int(q) >= polynomialQuantities || v.closed.stretch != nil {
 		return Polynomial{}, false
 	}
 	return v.poly[q], true
@@ -94,8 +94,12 @@ func (v *Interval) At(xi float64, f *Fields) {
 	}
 }
 
-// evaluate writes the polynomials' values at ξ to f.
+// evaluate writes the polynomials' values at ξ to f, or the closed form's.
 func (v *Interval) evaluate(xi float64, f *Fields) {
+	if v.closed.stretch != nil {
+		v.closedAt(xi, f)
+		return
+	}
 	at := func(q Quantity) float64 { return v.poly[q].at(v.degree[q], xi) }
 	f.X = v.X(xi)
 	f.AxialDisplacement, f.Deflection, f.Rotation = at(QAxialDisplacement), at(QDeflection), at(QRotation)
@@ -125,6 +129,8 @@ func (v *Interval) Range(q Quantity) (lo, hi Point) {
 // rangeOf works out Range of q into r.
 func (v *Interval) rangeOf(q Quantity, r *[2]extremum) {
 	switch {
+	case v.closed.stretch != nil:
+		r[0], r[1] = v.closedRange(q)
 	case q == QCombinedStress && v.oneFibre:
 		r[0], r[1] = endsRange(v.End(0).CombinedStress, v.End(1).CombinedStress)
 	case q == QCombinedStress:
@@ -158,6 +164,11 @@ func oneFibre(a, b *Polynomial) bool {
 // endsFromPolynomials sets the ends to the polynomials' values at ξ = 0 (their
 // constant terms) and ξ = 1 (the sums of their coefficients).
 func (v *Interval) endsFromPolynomials() {
+	if v.closed.stretch != nil {
+		v.closedAt(0, &v.ends[0])
+		v.closedAt(1, &v.ends[1])
+		return
+	}
 	var at0, at1 [polynomialQuantities]float64
 	for q := range at0 {
 		p := &v.poly[q]
@@ -351,6 +362,10 @@ type ElementView struct {
 	// Exact is the exact solution on the element when HasExact.
 	Exact    Interval
 	HasExact bool
+	// exactSize is the sums of the magnitudes of the coefficients of u and
+	// w of the exact stretch holding the element (m): the scale of their
+	// round-off.
+	exactSize [2]float64
 }
 
 // walker fills the view of each element in turn.
@@ -367,7 +382,7 @@ func newWalker(s *Solution, e *Exact) *walker {
 		w.exact = e
 		w.view.HasExact = true
 		w.view.Exact.degree = exactDegrees
-		w.view.Exact.size = e.stretches[0].sizes()
+		w.view.exactSize = e.stretches[0].sizes()
 	}
 	w.view.FE.degree = s.degrees()
 	return w
@@ -392,7 +407,7 @@ func (w *walker) exactOn(v *ElementView) {
 	mid := v.Start + (v.End-v.Start)/2
 	if w.stretch+1 < len(st) && st[w.stretch+1].start <= mid {
 		w.stretch = sort.Search(len(st), func(j int) bool { return st[j].start > mid }) - 1
-		v.Exact.size = st[w.stretch].sizes()
+		v.exactSize = st[w.stretch].sizes()
 	}
 	s := &st[w.stretch]
 	t0 := (v.Start - s.start) / s.length
@@ -403,7 +418,7 @@ func (w *walker) exactOn(v *ElementView) {
 }
 
 // sizes are the sums of the magnitudes of the stretch's coefficients of u
-// and w, m: the scale of round-off in their values (Interval.size).
+// and w, m: the scale of round-off in their values (ElementView.exactSize).
 func (s *exactStretch) sizes() [2]float64 {
 	var out [2]float64
 	for i, c := range [2][]float64{s.bar.coeff, s.beam.coeff} {
@@ -429,6 +444,11 @@ var exactDegrees = [polynomialQuantities]int{
 // The coefficients are written one by one: a walk calls this for every
 // element.
 func (s *exactStretch) interval(t0, scale, start, h float64, v *Interval) {
+	if !s.polynomial() {
+		v.setClosed(s, t0, scale, start, h)
+		return
+	}
+	v.closed.stretch = nil
 	p := &v.poly
 	u, w := &p[QAxialDisplacement], &p[QDeflection]
 	c, d := s.bar.coeff[:4:4], s.beam.coeff[:6:6]
@@ -446,7 +466,20 @@ func (s *exactStretch) interval(t0, scale, start, h float64, v *Interval) {
 	vs := &p[QShearForce]
 	vs[0], vs[1], vs[2] = 6*ei*ih*w[3], 24*ei*ih*w[4], 60*ei*ih*w[5]
 	m := &p[QBendingMoment]
-	m[0], m[1], m[2], m[3] = 2*ei*w[2], 6*ei*w[3], 12*ei*w[4], 20*ei*w[5]
+	m[0], m[1], m[2], m[3] = 2*ei*w[2]+s.beam.offset, 6*ei*w[3], 12*ei*w[4], 20*ei*w[5]
+	if g := s.shear; g != 0 {
+		// Shear deformation (exactStretch.shearTerms): θ gains g·w‴ and a
+		// constant, M gains g·q (linear in ξ), V gains g·q′.
+		rot, m0, v := s.shearTerms(t0)
+		_, m1, _ := s.shearTerms(t0 + scale)
+		third := g * ih * ih * ih
+		r[0] += third*6*w[3] + rot
+		r[1] += third * 24 * w[4]
+		r[2] += third * 60 * w[5]
+		m[0] += m0
+		m[1] += m1 - m0
+		vs[0] += v
+	}
 	sa, sb := &p[QAxialStress], &p[QBendingStress]
 	sa[0], sa[1], sa[2] = n[0]*ia, n[1]*ia, n[2]*ia
 	sb[0], sb[1], sb[2], sb[3] = m[0]*ci, m[1]*ci, m[2]*ci, m[3]*ci

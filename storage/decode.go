@@ -411,9 +411,18 @@ func (r *reader) project(top *fields) *Project {
 		h.finish()
 	}
 
+	items, paths = top.list("foundations", false, "")
+	for i, item := range items {
+		g := r.object(paths[i], item)
+		p.Model.Foundations = append(p.Model.Foundations, fem.Foundation{
+			Start: g.number("start", "m", true), End: g.number("end", "m", true),
+			Modulus: g.number("modulus", "N/m²", false), AxialModulus: g.number("axial_modulus", "N/m²", false)})
+		g.finish()
+	}
+
 	items, paths = top.list("loads", false, "")
 	for i, item := range items {
-		r.load(p, r.object(paths[i], item))
+		r.load(&p.Model.PointLoads, &p.Model.DistributedLoad, &p.LoadOrder, r.object(paths[i], item))
 	}
 
 	if weight := top.object("self_weight", false, ""); weight.n != nil {
@@ -421,6 +430,7 @@ func (r *reader) project(top *fields) *Project {
 		weight.finish()
 	}
 	p.Model.TemperatureChange = top.number("temperature_change", "K", false)
+	r.cases(p, top)
 
 	mesh := top.object("mesh", true, `"mesh": {"elements": ...}`)
 	p.Model.Mesh = fem.MeshSettings{
@@ -457,9 +467,12 @@ func (r *reader) segment(f *fields) fem.Segment {
 	s := fem.Segment{Start: f.number("start", "m", true), End: f.number("end", "m", true)}
 	section := f.object("section", true, `"section": {"area", "second_moment", "fibre_distance"}`)
 	s.Section = fem.Section{
-		Area:          section.number("area", "m²", true),
-		SecondMoment:  section.number("second_moment", "m⁴", true),
-		FibreDistance: section.number("fibre_distance", "m", true),
+		Area:             section.number("area", "m²", true),
+		SecondMoment:     section.number("second_moment", "m⁴", true),
+		FibreDistance:    section.number("fibre_distance", "m", true),
+		Depth:            section.number("depth", "m", false),
+		ShearArea:        section.number("shear_area", "m²", false),
+		ShearCoefficient: section.number("shear_coefficient", "a ratio", false),
 	}
 	section.finish()
 	material := f.object("material", true, `"material": {"name", "elastic_modulus", ...}`)
@@ -469,8 +482,12 @@ func (r *reader) segment(f *fields) fem.Segment {
 		Density:          material.number("density", "kg/m³", false),
 		ThermalExpansion: material.number("thermal_expansion", "1/K", false),
 		Allowable:        material.number("allowable_stress", "Pa", false),
+		ShearModulus:     material.number("shear_modulus", "Pa", false),
+		Poisson:          material.number("poisson", "a ratio", false),
 	}
 	material.finish()
+	s.TemperatureDifference = f.number("temperature_difference", "K", false)
+	s.ShearDeformation = f.flag("shear_deformation", false)
 	f.finish()
 	return s
 }
@@ -509,20 +526,21 @@ func (r *reader) support(f *fields) fem.Support {
 	return s
 }
 
-func (r *reader) load(p *Project, f *fields) {
+// load reads one load into points or lines, noting its kind in order.
+func (r *reader) load(points *[]fem.PointLoad, lines *[]fem.DistributedLoad, order *[]LoadKind, f *fields) {
 	kind := f.text("kind", true, `"kind": "point" or "distributed"`)
 	switch kind {
 	case pointKindName:
-		p.LoadOrder = append(p.LoadOrder, PointLoad)
-		p.Model.PointLoads = append(p.Model.PointLoads, fem.PointLoad{
+		*order = append(*order, PointLoad)
+		*points = append(*points, fem.PointLoad{
 			X:          f.number("x", "m", true),
 			Axial:      f.number("axial", "N", false),
 			Transverse: f.number("transverse", "N", false),
 			Moment:     f.number("moment", "N·m", false),
 		})
 	case distributedKindName:
-		p.LoadOrder = append(p.LoadOrder, DistributedLoad)
-		p.Model.DistributedLoad = append(p.Model.DistributedLoad, r.distributed(f))
+		*order = append(*order, DistributedLoad)
+		*lines = append(*lines, r.distributed(f))
 	default:
 		if f.holds("kind", stringNode) {
 			r.add(join(f.path, "kind"), "%q is not a load kind; use \"point\" or \"distributed\"", cut(kind))

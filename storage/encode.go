@@ -21,18 +21,21 @@ const Version = 2
 // order and files diff well. Optional values are left out when zero.
 type (
 	fileProject struct {
-		Format            string          `json:"format"`
-		Version           int             `json:"version"`
-		Units             unitDeclaration `json:"units"`
-		Notes             fileNotes       `json:"notes,omitzero"`
-		Member            fileMember      `json:"member"`
-		Supports          []fileSupport   `json:"supports"`
-		Hinges            []fileHinge     `json:"hinges,omitempty"`
-		Loads             []any           `json:"loads,omitempty"`
-		SelfWeight        *fileGravity    `json:"self_weight,omitempty"`
-		TemperatureChange number          `json:"temperature_change,omitempty"`
-		Mesh              fileMesh        `json:"mesh"`
-		View              fileView        `json:"view"`
+		Format            string            `json:"format"`
+		Version           int               `json:"version"`
+		Units             unitDeclaration   `json:"units"`
+		Notes             fileNotes         `json:"notes,omitzero"`
+		Member            fileMember        `json:"member"`
+		Supports          []fileSupport     `json:"supports"`
+		Hinges            []fileHinge       `json:"hinges,omitempty"`
+		Foundations       []fileGround      `json:"foundations,omitempty"`
+		Loads             []any             `json:"loads,omitempty"`
+		SelfWeight        *fileGravity      `json:"self_weight,omitempty"`
+		TemperatureChange number            `json:"temperature_change,omitempty"`
+		Cases             []fileCase        `json:"cases,omitempty"`
+		Combinations      []fileCombination `json:"combinations,omitempty"`
+		Mesh              fileMesh          `json:"mesh"`
+		View              fileView          `json:"view"`
 	}
 	fileNotes struct {
 		Project  string `json:"project,omitempty"`
@@ -46,15 +49,20 @@ type (
 		Segments  []fileSegment `json:"segments"`
 	}
 	fileSegment struct {
-		Start    number       `json:"start"`
-		End      number       `json:"end"`
-		Section  fileSection  `json:"section"`
-		Material fileMaterial `json:"material"`
+		Start                 number       `json:"start"`
+		End                   number       `json:"end"`
+		Section               fileSection  `json:"section"`
+		Material              fileMaterial `json:"material"`
+		TemperatureDifference number       `json:"temperature_difference,omitempty"`
+		ShearDeformation      bool         `json:"shear_deformation,omitempty"`
 	}
 	fileSection struct {
-		Area          number `json:"area"`
-		SecondMoment  number `json:"second_moment"`
-		FibreDistance number `json:"fibre_distance"`
+		Area             number `json:"area"`
+		SecondMoment     number `json:"second_moment"`
+		FibreDistance    number `json:"fibre_distance"`
+		Depth            number `json:"depth,omitempty"`
+		ShearArea        number `json:"shear_area,omitempty"`
+		ShearCoefficient number `json:"shear_coefficient,omitempty"`
 	}
 	fileMaterial struct {
 		Name             string `json:"name,omitempty"`
@@ -62,6 +70,8 @@ type (
 		Density          number `json:"density,omitempty"`
 		ThermalExpansion number `json:"thermal_expansion,omitempty"`
 		Allowable        number `json:"allowable_stress,omitempty"`
+		ShearModulus     number `json:"shear_modulus,omitempty"`
+		Poisson          number `json:"poisson,omitempty"`
 	}
 	fileSupport struct {
 		X          number      `json:"x"`
@@ -72,6 +82,12 @@ type (
 	fileHinge struct {
 		X         number `json:"x"`
 		Stiffness number `json:"stiffness,omitempty"`
+	}
+	fileGround struct {
+		Start        number `json:"start"`
+		End          number `json:"end"`
+		Modulus      number `json:"modulus,omitempty"`
+		AxialModulus number `json:"axial_modulus,omitempty"`
 	}
 	// fileMotion holds one value per degree of freedom.
 	fileMotion struct {
@@ -262,9 +278,12 @@ func (c *converter) toFile(p *Project) fileProject {
 			Start: c.num(path+".start", s.Start),
 			End:   c.num(path+".end", s.End),
 			Section: fileSection{
-				Area:          c.num(path+".section.area", s.Section.Area),
-				SecondMoment:  c.num(path+".section.second_moment", s.Section.SecondMoment),
-				FibreDistance: c.num(path+".section.fibre_distance", s.Section.FibreDistance),
+				Area:             c.num(path+".section.area", s.Section.Area),
+				SecondMoment:     c.num(path+".section.second_moment", s.Section.SecondMoment),
+				FibreDistance:    c.num(path+".section.fibre_distance", s.Section.FibreDistance),
+				Depth:            c.num(path+".section.depth", s.Section.Depth),
+				ShearArea:        c.num(path+".section.shear_area", s.Section.ShearArea),
+				ShearCoefficient: c.num(path+".section.shear_coefficient", s.Section.ShearCoefficient),
 			},
 			Material: fileMaterial{
 				Name:             s.Material.Name,
@@ -272,12 +291,21 @@ func (c *converter) toFile(p *Project) fileProject {
 				Density:          c.num(path+".material.density", s.Material.Density),
 				ThermalExpansion: c.num(path+".material.thermal_expansion", s.Material.ThermalExpansion),
 				Allowable:        c.num(path+".material.allowable_stress", s.Material.Allowable),
+				ShearModulus:     c.num(path+".material.shear_modulus", s.Material.ShearModulus),
+				Poisson:          c.num(path+".material.poisson", s.Material.Poisson),
 			},
+			ShearDeformation:      s.ShearDeformation,
+			TemperatureDifference: c.num(path+".temperature_difference", s.TemperatureDifference),
 		}
 	}
 	for i, h := range m.Hinges {
 		path := fmt.Sprintf("hinges[%d]", i)
 		f.Hinges = append(f.Hinges, fileHinge{X: c.num(path+".x", h.X), Stiffness: c.num(path+".stiffness", h.Stiffness)})
+	}
+	for i, g := range m.Foundations {
+		path := fmt.Sprintf("foundations[%d]", i)
+		f.Foundations = append(f.Foundations, fileGround{Start: c.num(path+".start", g.Start), End: c.num(path+".end", g.End),
+			Modulus: c.num(path+".modulus", g.Modulus), AxialModulus: c.num(path+".axial_modulus", g.AxialModulus)})
 	}
 	for i, s := range m.Supports {
 		path := fmt.Sprintf("supports[%d]", i)
@@ -309,6 +337,7 @@ func (c *converter) toFile(p *Project) fileProject {
 		f.Supports[i] = fs
 	}
 	f.Loads = c.loads(p)
+	f.Cases, f.Combinations = c.cases(p)
 	if m.Gravity != [2]float64{} {
 		f.SelfWeight = &fileGravity{X: c.num("self_weight.gravity_x", m.Gravity[0]), Y: c.num("self_weight.gravity_y", m.Gravity[1])}
 	}
@@ -321,30 +350,38 @@ func (c *converter) loads(p *Project) []any {
 	for i, ref := range fileLoads(p) {
 		path := fmt.Sprintf("loads[%d]", i)
 		if ref.kind == PointLoad {
-			l := p.Model.PointLoads[ref.index]
-			out = append(out, filePointLoad{
-				Kind:       pointKindName,
-				X:          c.num(path+".x", l.X),
-				Axial:      c.num(path+".axial", l.Axial),
-				Transverse: c.num(path+".transverse", l.Transverse),
-				Moment:     c.num(path+".moment", l.Moment),
-			})
-			continue
+			out = append(out, c.pointLoad(path, p.Model.PointLoads[ref.index]))
+		} else {
+			out = append(out, c.distributedLoad(path, p.Model.DistributedLoad[ref.index]))
 		}
-		l := p.Model.DistributedLoad[ref.index]
-		fl := fileDistributedLoad{Kind: distributedKindName, Direction: directionNames[l.Direction],
-			Points: make([][2]number, len(l.Points))}
-		if fl.Direction == "" {
-			c.problems = append(c.problems, Problem{Path: path + ".direction",
-				Message: fmt.Sprintf("direction %s is not one a distributed load can have; choose axial or transverse", l.Direction)})
-		}
-		for j, pt := range l.Points {
-			pp := fmt.Sprintf("%s.points[%d]", path, j)
-			fl.Points[j] = [2]number{c.num(pp+"[0]", pt.X), c.num(pp+"[1]", pt.Intensity)}
-		}
-		out = append(out, fl)
 	}
 	return out
+}
+
+// pointLoad is l as the file holds it at path.
+func (c *converter) pointLoad(path string, l fem.PointLoad) filePointLoad {
+	return filePointLoad{
+		Kind:       pointKindName,
+		X:          c.num(path+".x", l.X),
+		Axial:      c.num(path+".axial", l.Axial),
+		Transverse: c.num(path+".transverse", l.Transverse),
+		Moment:     c.num(path+".moment", l.Moment),
+	}
+}
+
+// distributedLoad is l as the file holds it at path.
+func (c *converter) distributedLoad(path string, l fem.DistributedLoad) fileDistributedLoad {
+	fl := fileDistributedLoad{Kind: distributedKindName, Direction: directionNames[l.Direction],
+		Points: make([][2]number, len(l.Points))}
+	if fl.Direction == "" {
+		c.problems = append(c.problems, Problem{Path: path + ".direction",
+			Message: fmt.Sprintf("direction %s is not one a distributed load can have; choose axial or transverse", l.Direction)})
+	}
+	for j, pt := range l.Points {
+		pp := fmt.Sprintf("%s.points[%d]", path, j)
+		fl.Points[j] = [2]number{c.num(pp+"[0]", pt.X), c.num(pp+"[1]", pt.Intensity)}
+	}
+	return fl
 }
 
 // loadRef names one load of a model.
@@ -356,10 +393,16 @@ type loadRef struct {
 // fileLoads gives the loads of p in file order: first as p.LoadOrder says,
 // then any loads it does not reach, point loads before distributed ones.
 func fileLoads(p *Project) []loadRef {
-	counts := [2]int{len(p.Model.PointLoads), len(p.Model.DistributedLoad)}
+	return orderedLoads(p.LoadOrder, len(p.Model.PointLoads), len(p.Model.DistributedLoad))
+}
+
+// orderedLoads gives points point loads and lines distributed loads in
+// file order: as order says, then any it does not reach.
+func orderedLoads(order []LoadKind, points, lines int) []loadRef {
+	counts := [2]int{points, lines}
 	var next [2]int
 	refs := make([]loadRef, 0, counts[0]+counts[1])
-	for _, k := range p.LoadOrder {
+	for _, k := range order {
 		if (k == PointLoad || k == DistributedLoad) && next[k] < counts[k] {
 			refs = append(refs, loadRef{k, next[k]})
 			next[k]++

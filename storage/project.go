@@ -13,7 +13,10 @@ type Project struct {
 	// first. Entries beyond the loads of a kind are skipped and loads beyond
 	// the entries are written last, so a stale order never loses a load.
 	LoadOrder []LoadKind
-	View      View
+	// CaseLoadOrder is LoadOrder for the loads of each load case, in the
+	// order of Model.Cases; nil, or short, keeps point loads first.
+	CaseLoadOrder [][]LoadKind
+	View          View
 }
 
 // LoadKind tells point loads from distributed loads in Project.LoadOrder.

@@ -118,5 +118,6 @@ func checkTexts(p *Project) []Problem {
 	for i, s := range p.Model.Segments {
 		check(fmt.Sprintf("member.segments[%d].material.name", i), s.Material.Name, false)
 	}
+	caseTexts(p, check)
 	return problems
 }

@@ -17,13 +17,14 @@ func check(p *Project) []Problem {
 	}
 	var invalid *fem.ValidationError
 	if err := p.Model.Validate(); errors.As(err, &invalid) {
-		paths := loadPaths(p)
+		paths := append([][2][]string{loadPaths(p)}, caseLoadPaths(p)...)
 		for _, q := range invalid.Problems {
 			problems = append(problems, Problem{Path: modelPath(q.Place, paths), Message: q.Message})
 		}
 	} else if err != nil {
 		add("", "%v", err)
 	}
+	problems = append(problems, caseProblems(p)...)
 	v := p.View
 	if v.Units != SI && v.Units != US {
 		add("view.units", "%q is not a display unit system; use %q or %q", cut(string(v.Units)), SI, US)
@@ -54,9 +55,18 @@ func loadPaths(p *Project) [2][]string {
 	return paths
 }
 
-// modelPath turns the place of a fem.Problem into a path in the file.
-func modelPath(at fem.Place, loads [2][]string) string {
-	var item string
+// modelPath turns the place of a fem.Problem into a path in the file;
+// loads[c] are the paths of the loads of case c (0 the model's own, see
+// fem.Item).
+func modelPath(at fem.Place, loads [][2][]string) string {
+	item := casePath(at.Item)
+	if key := caseKey(at); key != "" {
+		return join(item, key)
+	}
+	own := [2][]string{}
+	if c := at.Item.Case; c >= 0 && c < len(loads) {
+		own = loads[c]
+	}
 	switch at.Item.Kind {
 	case fem.SegmentItem:
 		item = fmt.Sprintf("member.segments[%d]", at.Item.Index)
@@ -64,10 +74,12 @@ func modelPath(at fem.Place, loads [2][]string) string {
 		item = fmt.Sprintf("supports[%d]", at.Item.Index)
 	case fem.HingeItem:
 		item = fmt.Sprintf("hinges[%d]", at.Item.Index)
+	case fem.FoundationItem:
+		item = fmt.Sprintf("foundations[%d]", at.Item.Index)
 	case fem.PointLoadItem:
-		item = indexed(loads[PointLoad], at.Item.Index)
+		item = indexed(own[PointLoad], at.Item.Index)
 	case fem.DistributedLoadItem:
-		item = indexed(loads[DistributedLoad], at.Item.Index)
+		item = indexed(own[DistributedLoad], at.Item.Index)
 	case fem.MeshItem:
 		item = "mesh"
 	}
@@ -98,12 +110,28 @@ func propertyKey(at fem.Place) string {
 		return "material.thermal_expansion"
 	case fem.AllowableProperty:
 		return "material.allowable_stress"
+	case fem.DepthProperty:
+		return "section.depth"
+	case fem.TemperatureDifferenceProperty:
+		return "temperature_difference"
+	case fem.ShearAreaProperty:
+		return "section.shear_area"
+	case fem.ShearCoefficientProperty:
+		return "section.shear_coefficient"
+	case fem.ShearModulusProperty:
+		return "material.shear_modulus"
+	case fem.PoissonProperty:
+		return "material.poisson"
 	case fem.PositionProperty:
 		return "x"
 	case fem.KindProperty:
 		return "kind"
 	case fem.StiffnessProperty:
 		return "stiffness"
+	case fem.ModulusProperty:
+		return "modulus"
+	case fem.AxialModulusProperty:
+		return "axial_modulus"
 	case fem.MotionStiffnessProperty:
 		return "stiffness." + motionName(at.Dof)
 	case fem.SettlementProperty:

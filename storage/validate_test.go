@@ -44,7 +44,7 @@ func TestDecodeReportsEachKindOfProblem(t *testing.T) {
 		{name: "units other than SI", old: `"length": "m"`, new: `"length": "mm"`, path: "units.length", phrase: `SI base units only; convert the values to m`},
 		{name: "unit declaration missing", old: `"moment": "N·m",`, new: ``, path: "units.moment", phrase: `missing; add "moment": "N·m"`},
 		{name: "unknown key at the top", old: `"mesh": {`, new: `"colour": "red", "mesh": {`, path: "colour", phrase: "unknown key"},
-		{name: "unknown key in a section", old: `"area": 0.0243,`, new: `"area": 0.0243, "depth": 0.27,`, path: "member.segments[0].section.depth", phrase: "keys allowed here: area, second_moment, fibre_distance"},
+		{name: "unknown key in a section", old: `"area": 0.0243,`, new: `"area": 0.0243, "height": 0.27,`, path: "member.segments[0].section.height", phrase: "keys allowed here: area, second_moment, fibre_distance, depth"},
 		{name: "wrong type", old: `"area": 0.0243,`, new: `"area": "0.0243",`, path: "member.segments[0].section.area", phrase: "expected a number in m², found text"},
 		{name: "null", old: `"density": 420,`, new: `"density": null,`, path: "member.segments[0].material.density", phrase: "found null"},
 		{name: "required value missing", old: `"second_moment": 8.54296875e-5,`, new: ``, path: "member.segments[1].section.second_moment", phrase: "missing"},
@@ -172,7 +172,11 @@ func TestMigrateAppliesStepsInOrder(t *testing.T) {
 // loads numbered in file order (docs/format.md).
 func TestModelPathOfEveryProperty(t *testing.T) {
 	// File order: distributed load 0, point load 0, point load 1.
-	loads := [2][]string{PointLoad: {"loads[1]", "loads[2]"}, DistributedLoad: {"loads[0]"}}
+	// Case 1's loads: point load 0 second, distributed load 0 first.
+	loads := [][2][]string{
+		{PointLoad: {"loads[1]", "loads[2]"}, DistributedLoad: {"loads[0]"}},
+		{PointLoad: {"cases[0].loads[1]"}, DistributedLoad: {"cases[0].loads[0]"}},
+	}
 	at := func(kind fem.ItemKind, i int, p fem.Property) fem.Place {
 		return fem.Place{Item: fem.Item{Kind: kind, Index: i}, Property: p}
 	}
@@ -185,6 +189,9 @@ func TestModelPathOfEveryProperty(t *testing.T) {
 	gravityY.Dof = fem.Transverse
 	pointX, intensity := at(fem.DistributedLoadItem, 0, fem.PointXProperty), at(fem.DistributedLoadItem, 0, fem.PointIntensityProperty)
 	pointX.Vertex, intensity.Vertex = 2, 3
+	inCase := func(p fem.Place) fem.Place { p.Item.Case = 1; return p }
+	factorCase, factor := at(fem.CombinationItem, 2, fem.FactorCaseProperty), at(fem.CombinationItem, 2, fem.FactorProperty)
+	factorCase.Vertex, factor.Vertex = 1, 1
 	tests := []struct {
 		place fem.Place
 		path  string
@@ -204,6 +211,12 @@ func TestModelPathOfEveryProperty(t *testing.T) {
 		{at(fem.SegmentItem, 0, fem.DensityProperty), "member.segments[0].material.density"},
 		{at(fem.SegmentItem, 0, fem.ThermalExpansionProperty), "member.segments[0].material.thermal_expansion"},
 		{at(fem.SegmentItem, 0, fem.AllowableProperty), "member.segments[0].material.allowable_stress"},
+		{at(fem.SegmentItem, 0, fem.DepthProperty), "member.segments[0].section.depth"},
+		{at(fem.SegmentItem, 0, fem.TemperatureDifferenceProperty), "member.segments[0].temperature_difference"},
+		{at(fem.SegmentItem, 0, fem.ShearAreaProperty), "member.segments[0].section.shear_area"},
+		{at(fem.SegmentItem, 0, fem.ShearCoefficientProperty), "member.segments[0].section.shear_coefficient"},
+		{at(fem.SegmentItem, 0, fem.ShearModulusProperty), "member.segments[0].material.shear_modulus"},
+		{at(fem.SegmentItem, 0, fem.PoissonProperty), "member.segments[0].material.poisson"},
 		{at(fem.SupportItem, 2, fem.PositionProperty), "supports[2].x"},
 		{at(fem.SupportItem, 2, fem.KindProperty), "supports[2].kind"},
 		{at(fem.SupportItem, 2, fem.StiffnessProperty), "supports[2].stiffness"},
@@ -221,6 +234,22 @@ func TestModelPathOfEveryProperty(t *testing.T) {
 		{mesh(fem.ElementsProperty), "mesh.elements"},
 		{mesh(fem.MaxElementLengthProperty), "mesh.max_element_length"},
 		{mesh(fem.BarOrderProperty), "mesh.bar_order"},
+		{at(fem.HingeItem, 1, fem.PositionProperty), "hinges[1].x"},
+		{at(fem.HingeItem, 0, fem.StiffnessProperty), "hinges[0].stiffness"},
+		{at(fem.FoundationItem, 1, fem.StartProperty), "foundations[1].start"},
+		{at(fem.FoundationItem, 0, fem.EndProperty), "foundations[0].end"},
+		{at(fem.FoundationItem, 0, fem.ModulusProperty), "foundations[0].modulus"},
+		{at(fem.FoundationItem, 2, fem.AxialModulusProperty), "foundations[2].axial_modulus"},
+		{inCase(at(fem.PointLoadItem, 0, fem.PositionProperty)), "cases[0].loads[1].x"},
+		{inCase(pointX), "cases[0].loads[0].points[2][0]"},
+		{at(fem.CaseItem, 1, fem.NoProperty), "cases[1]"},
+		{at(fem.CaseItem, 1, fem.NameProperty), "cases[1].name"},
+		{at(fem.CaseItem, 0, fem.TemperatureChangeProperty), "cases[0].temperature_change"},
+		{at(fem.CombinationItem, 2, fem.NameProperty), "combinations[2].name"},
+		{at(fem.CombinationItem, 2, fem.FactorsProperty), "combinations[2].factors"},
+		{at(fem.CombinationItem, 2, fem.CombinationKindProperty), "combinations[2].kind"},
+		{factorCase, "combinations[2].factors[1].case"},
+		{factor, "combinations[2].factors[1].factor"},
 	}
 	covered := map[fem.Property]bool{}
 	for _, tt := range tests {
@@ -229,7 +258,7 @@ func TestModelPathOfEveryProperty(t *testing.T) {
 			t.Errorf("%+v: path %q, want %q", tt.place, got, tt.path)
 		}
 	}
-	for p := fem.NoProperty; p <= fem.TemperatureChangeProperty; p++ {
+	for p := fem.NoProperty; p <= fem.AxialModulusProperty; p++ {
 		if !covered[p] {
 			t.Errorf("property %d has no row in this table", p)
 		}

@@ -2,11 +2,11 @@ package storage
 
 import (
 	"os"
-
 	"path/filepath"
 	"reflect"
-	"stave/fem"
 	"testing"
+
+	"stave/fem"
 )
 
 // A version 1 file keeps opening: it reads as the same project as its
@@ -37,7 +37,7 @@ func TestVersion1Opens(t *testing.T) {
 }
 
 // The additions of version 2 survive saving and loading: a roller with a
-// rotational spring, an axial-only member.
+// rotational spring, an axial-only member, hinges, foundations.
 func TestVersion2Additions(t *testing.T) {
 	p := goldenProject()
 	p.Model.Supports[1].Stiffness = [3]float64{0, 0, 4.5e6} // the roller's rotational spring
@@ -60,5 +60,15 @@ func TestVersion2Additions(t *testing.T) {
 	}
 	if !reflect.DeepEqual(back.Model.Hinges, p.Model.Hinges) {
 		t.Errorf("hinges read back as %+v, want %+v", back.Model.Hinges, p.Model.Hinges)
+	}
+	p = goldenProject()
+	p.Model.Foundations = []fem.Foundation{{Start: 0.5, End: 3, Modulus: 2.5e7}, {Start: 1, End: 2, AxialModulus: 4e6}}
+	p.Model.Mesh.BarOrder = fem.LinearBar // quadratic bars take no axial foundation
+	back, err = Unmarshal(mustMarshal(t, p))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !reflect.DeepEqual(back.Model.Foundations, p.Model.Foundations) {
+		t.Errorf("foundations read back as %+v, want %+v", back.Model.Foundations, p.Model.Foundations)
 	}
 }

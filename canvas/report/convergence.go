@@ -8,6 +8,7 @@ import (
 
 	"stave/canvas"
 	"stave/fem"
+	"stave/fem/analysis"
 	"stave/fem/study"
 )
 
@@ -31,70 +32,111 @@ func jsonNumber(v float64) *float64 {
 type convergenceRowJSON struct {
 	PerStretch int      `json:"elements_per_stretch"`
 	Elements   int      `json:"elements"`
-	MaxStress  float64  `json:"max_stress_error_relative"`
-	L2         float64  `json:"l2_error_relative"`
-	Energy     float64  `json:"energy_error_relative"`
+	MaxStress  float64  `json:"stress_error"`
+	L2         float64  `json:"displacement_error"`
+	Energy     float64  `json:"energy_error"`
 	StressRate *float64 `json:"stress_rate"`
-	L2Rate     *float64 `json:"l2_rate"`
+	L2Rate     *float64 `json:"displacement_rate"`
 	EnergyRate *float64 `json:"energy_rate"`
+}
+
+type rateJSON struct {
+	Fitted   *float64 `json:"fitted"`
+	FromRow  int      `json:"fitted_from_row"`
+	LastStep *float64 `json:"last_step"`
+}
+
+func rateOf(r study.Rate) rateJSON {
+	return rateJSON{jsonNumber(r.Fitted), r.From, jsonNumber(r.Last)}
 }
 
 // WriteConvergenceJSON writes the convergence study t of the model in file
 // path and, when v is not nil, the adaptive refinement beside uniform
-// refinement, as JSON with the caution.
-func WriteConvergenceJSON(w io.Writer, path string, t study.Table, v *study.Versus) error {
+// refinement, as JSON with the findings of the analysis of the model on its
+// own mesh (its warnings) and the caution.
+func WriteConvergenceJSON(w io.Writer, path string, t study.Table, v *study.Versus, findings []analysis.Finding) error {
 	rows := make([]convergenceRowJSON, len(t.Rows))
 	for i, r := range t.Rows {
 		rows[i] = convergenceRowJSON{r.PerStretch, r.Elements, r.MaxStress, r.L2, r.Energy,
 			jsonNumber(r.StressRate), jsonNumber(r.L2Rate), jsonNumber(r.EnergyRate)}
 	}
 	out := map[string]any{
-		"file": path,
-		"rows": rows,
-		"fitted_rates": map[string]*float64{
-			"stress": jsonNumber(t.StressRate), "l2": jsonNumber(t.L2Rate), "energy": jsonNumber(t.EnergyRate),
+		"format":          "stave-convergence",
+		"version":         1,
+		"file":            path,
+		"rows":            rows,
+		"exact_for_model": t.Exact,
+		"rates": map[string]rateJSON{
+			"stress": rateOf(t.Stress), "displacement": rateOf(t.L2), "energy": rateOf(t.Energy),
 		},
-		"caution": fem.Caution,
+		"check_failed": analysis.Failed(findings),
+		"warnings":     warningsOf(findings),
+		"caution":      fem.Caution,
 	}
 	if v != nil {
 		its := make([]map[string]any, len(v.Adaptive.Iterations))
 		for i, it := range v.Adaptive.Iterations {
 			its[i] = map[string]any{"elements": it.Elements, "estimated": it.Estimated, "true": it.True, "effectivity": jsonNumber(it.Effectivity)}
 		}
-		out["adaptive"] = map[string]any{
-			"iterations": its, "reached": v.Adaptive.Reached, "true_error": v.AdaptiveTrue,
-			"uniform_elements_for_same_error": v.UniformElements, "uniform_true_error": v.UniformTrue,
+		adaptive := map[string]any{
+			"iterations": its, "reached": v.Adaptive.Reached, "true_error": v.AdaptiveTrue, "exact_for_model": v.Exact,
+			"uniform_elements_for_same_error": nil, "uniform_true_error": nil,
 		}
+		if !v.Exact {
+			adaptive["uniform_elements_for_same_error"], adaptive["uniform_true_error"] = v.UniformElements, v.UniformTrue
+		}
+		out["adaptive"] = adaptive
 	}
 	return WriteJSON(w, out)
 }
 
 // WriteConvergenceText writes the convergence study t of the model named
-// name as a table of errors and rates, the fitted rates beside theory's,
-// then (when v is not nil) the adaptive refinement, and the caution.
-func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Versus) {
+// name as a table of errors and rates, the rates fitted over the
+// asymptotic rows and of the last step beside theory's, then (when v is not
+// nil) the adaptive refinement, the warnings among findings (of the
+// analysis of the model on its own mesh; none shown when nil) and the
+// caution.
+func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Versus, findings []analysis.Finding) {
 	fmt.Fprintf(w, "Convergence of %s against the exact solution of the same model\n", name)
-	fmt.Fprintln(w, "(errors relative; rate = log(error ratio) / log(element ratio))")
-	tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', tabwriter.AlignRight)
-	fmt.Fprintln(tw, "per stretch\telements\tmax stress\trate\tL2 displ.\trate\tenergy\trate\t")
-	for _, r := range t.Rows {
-		fmt.Fprintf(tw, "%d\t%d\t%.3e\t%s\t%.3e\t%s\t%.3e\t%s\t\n", r.PerStretch, r.Elements,
-			r.MaxStress, RateText(r.StressRate), r.L2, RateText(r.L2Rate), r.Energy, RateText(r.EnergyRate))
+	if t.Exact {
+		fmt.Fprintf(w, "The finite element answer is exact for this model on every mesh tried (%d to %d elements): its errors are round-off, below %.0e,\n",
+			t.Rows[0].Elements, t.Rows[len(t.Rows)-1].Elements, study.RoundOff)
+		fmt.Fprintln(w, "as with point loads only, which linear bars and Hermite beams reproduce between nodes too. There is no rate to measure.")
+	} else {
+		fmt.Fprintf(w, "(errors relative: %s, %s, %s; rate = log(error ratio) / log(element ratio))\n",
+			fem.StressErrorName, fem.DisplacementErrorName, fem.EnergyErrorName)
+		tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', tabwriter.AlignRight)
+		fmt.Fprintln(tw, "per stretch\telements\tstress\trate\tdisplacement\trate\tenergy\trate\t")
+		for _, r := range t.Rows {
+			fmt.Fprintf(tw, "%d\t%d\t%.3e\t%s\t%.3e\t%s\t%.3e\t%s\t\n", r.PerStretch, r.Elements,
+				r.MaxStress, RateText(r.StressRate), r.L2, RateText(r.L2Rate), r.Energy, RateText(r.EnergyRate))
+		}
+		tw.Flush()
+		rate := func(r study.Rate) string {
+			if math.IsNaN(r.Fitted) {
+				return "-"
+			}
+			return fmt.Sprintf("%s (last step %s, fitted from %d elements on)", RateText(r.Fitted), RateText(r.Last), t.Rows[r.From].Elements)
+		}
+		fmt.Fprintf(w, "Rates: stress %s; displacement %s; energy %s\n", rate(t.Stress), rate(t.L2), rate(t.Energy))
+		fmt.Fprintln(w, "Theory for smooth solutions (Strang & Fix): linear bars displacement 2, energy 1; quadratic bars 3 and 2; Hermite beams 4 and 2.")
+		fmt.Fprintln(w, "A member with both shows the beam's rates on coarse meshes and the bar's on fine ones; the fit takes the finest rows that agree.")
+		fmt.Fprintln(w, "Point loads, steps and partial loads on key points keep these rates, since the mesh has nodes there.")
 	}
-	tw.Flush()
-	fmt.Fprintf(w, "Fitted rates: stress %s, L2 %s, energy %s\n", RateText(t.StressRate), RateText(t.L2Rate), RateText(t.EnergyRate))
-	fmt.Fprintln(w, "Theory for smooth solutions (Strang & Fix): linear bars L2 2, energy 1; quadratic bars 3 and 2; Hermite beams 4 and 2.")
-	fmt.Fprintln(w, "Point loads, steps and partial loads on key points keep these rates, since the mesh has nodes there.")
 	if v != nil {
 		fmt.Fprintln(w)
 		WriteAdaptiveText(w, *v, nil)
+	}
+	if findings != nil {
+		fmt.Fprintln(w, "\nThe model on its own mesh, checked as `stave solve` checks it:")
+		WriteWarningsText(w, findings)
 	}
 	fmt.Fprintln(w, "\nCaution:", fem.Caution)
 }
 
 // WriteAdaptiveText writes the iterations of an adaptive refinement and how
 // many elements uniform refinement needs for the same error, or why that
-// comparison failed (uniformErr).
+// comparison failed (uniformErr) or was not made.
 func WriteAdaptiveText(w io.Writer, v study.Versus, uniformErr error) {
 	fmt.Fprintln(w, "Adaptive refinement (recovery-based estimate, Zienkiewicz & Zhu)")
 	tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', tabwriter.AlignRight)
@@ -106,21 +148,30 @@ func WriteAdaptiveText(w io.Writer, v study.Versus, uniformErr error) {
 	if !v.Adaptive.Reached {
 		fmt.Fprintln(w, "The target was not reached within the element limit.")
 	}
-	if uniformErr != nil {
+	switch {
+	case v.Exact:
+		fmt.Fprintln(w, "The finite element answer is exact for this model: its error is round-off, so uniform refinement is not compared.")
+	case uniformErr != nil:
 		fmt.Fprintf(w, "Uniform refinement was not compared: %v\n", uniformErr)
-		return
+	default:
+		fmt.Fprintf(w, "Uniform refinement needs %d elements for the same true error (%.3e; adaptive %.3e with %d elements).\n",
+			v.UniformElements, v.UniformTrue, v.AdaptiveTrue, len(v.Adaptive.Nodes)-1)
 	}
-	fmt.Fprintf(w, "Uniform refinement needs %d elements for the same true error (%.3e; adaptive %.3e with %d elements).\n",
-		v.UniformElements, v.UniformTrue, v.AdaptiveTrue, len(v.Adaptive.Nodes)-1)
 }
 
 // WriteConvergenceChart plots the errors of study t against the number of
-// elements (canvas.WriteConvergenceChart) as "png", "svg" or "pdf".
+// elements (canvas.WriteConvergenceChart) as "png", "svg" or "pdf", with
+// the study's fitted rates; a model the finite element answer is exact for
+// has no chart.
 func WriteConvergenceChart(w io.Writer, format string, t study.Table) error {
+	if t.Exact {
+		return fmt.Errorf("the finite element answer is exact for this model: its errors are round-off, with no convergence to plot")
+	}
 	rows := make([]canvas.ConvergenceRow, len(t.Rows))
 	for i, r := range t.Rows {
 		rows[i] = canvas.ConvergenceRow{Elements: r.Elements,
 			Errors: fem.ErrorNorms{MaxStressRelative: r.MaxStress, RelativeL2: r.L2, RelativeEnergy: r.Energy}}
 	}
-	return canvas.WriteConvergenceChart(w, format, rows)
+	return canvas.WriteConvergenceChart(w, format, rows, canvas.ConvergenceRates{
+		Displacement: t.L2.Fitted, Energy: t.Energy.Fitted, Stress: t.Stress.Fitted, Floor: study.RoundOff})
 }

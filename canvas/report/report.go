@@ -76,6 +76,8 @@ type Options struct {
 	// Units is the unit system of every product; the zero System for the
 	// project's display units (Export) or the source's (Write).
 	Units units.System
+	// Show is what to show of a model with load cases (Export).
+	Show analysis.Show
 }
 
 // Defaults of Options and of the results table.
@@ -155,20 +157,24 @@ func Analyse(ctx context.Context, p *storage.Project) (Source, error) {
 
 // Export analyses p (finite elements, exact solution and checks, with the
 // project's check limits) and writes one product of it to w (see Write), in
-// the project's display units unless opts.Units names others.
-func Export(ctx context.Context, w io.Writer, p *storage.Project, product string, opts Options) error {
+// the project's display units unless opts.Units names others. It returns
+// what it wrote from, whose analysis and findings say whether the model was
+// solved and whether a check failed.
+func Export(ctx context.Context, w io.Writer, p *storage.Project, product string, opts Options) (Source, error) {
 	if _, ok := ProductExt(product); !ok {
-		return fmt.Errorf("cannot export %q: choose one of %s", product, productList())
+		return Source{}, fmt.Errorf("cannot export %q: choose one of %s", product, productList())
 	}
 	r := Request(p, nil)
+	r.Show = opts.Show
 	if opts.Units.Name != "" {
 		r.Checks.Units = opts.Units // the checks' messages too
 	}
 	a, err := analysis.Run(ctx, r)
 	if err != nil {
-		return err
+		return Source{}, err
 	}
-	return Write(w, NewSource(p, &a), product, opts)
+	src := NewSource(p, &a)
+	return src, Write(w, src, product, opts)
 }
 
 // Input is the drawing of src: the one place where results become a
@@ -182,8 +188,23 @@ func Input(src Source) canvas.Input {
 		in.Problem = a.Problem()
 		in.Unreliable = analysis.Unreliable(src.Findings)
 		in.Marks = marks(src.Findings)
+		in.Envelope = envelopeInput(a)
 	}
 	return in
+}
+
+// warningSentences are the warnings among fs for a one-page sheet, each
+// with its code: failures and cautions in full, notes by their name alone.
+func warningSentences(fs []analysis.Finding) []string {
+	var out []string
+	for _, f := range analysis.Warnings(fs) {
+		text := f.Sentence()
+		if !f.Severity.Flagged() {
+			text = f.Status + " — " + f.Name
+		}
+		out = append(out, fmt.Sprintf("[%s] %s", f.Code, text))
+	}
+	return out
 }
 
 // marks are the drawing's markers for the findings that name a point.
@@ -220,11 +241,16 @@ func Write(w io.Writer, src Source, product string, opts Options) error {
 		return canvas.WriteImage(w, product, in, opts.Width, opts.Height, opts.DPI/72)
 	case "sheet-pdf", "sheet-png":
 		n := src.Project.Notes
-		return canvas.WriteSheet(w, strings.TrimPrefix(product, "sheet-"), canvas.SheetInput{
+		sheet := canvas.SheetInput{
 			Input:  in,
 			Notes:  canvas.SheetNotes{Project: n.Project, Mark: n.Member, Engineer: n.Engineer, Date: n.Date, Version: Version},
-			Checks: analysis.Flagged(src.Findings),
-		})
+			Checks: warningSentences(src.Findings),
+			Cases:  sheetCaseLines(src),
+		}
+		if a := src.Analysis; a != nil && a.Solution != nil {
+			sheet.Mesh = analysis.MeshChoice(a.Summary())
+		}
+		return canvas.WriteSheet(w, strings.TrimPrefix(product, "sheet-"), sheet)
 	case "csv":
 		if in.Solution == nil {
 			return fmt.Errorf("there are no results to tabulate: %s", in.Problem)
@@ -233,7 +259,9 @@ func Write(w io.Writer, src Source, product string, opts Options) error {
 		if points == 0 {
 			points = canvas.DefaultCSVPoints(len(in.Solution.Mesh.Elements))
 		}
-		return canvas.WriteCSV(w, in.Solution, in.Exact, src.Units, points)
+		var results strings.Builder
+		WriteResultsText(&results, src)
+		return canvas.WriteCSV(w, in.Solution, in.Exact, src.Units, points, strings.Split(strings.TrimRight(results.String(), "\n"), "\n"))
 	}
 	return fmt.Errorf("cannot export %q: choose one of %s", product, productList())
 }

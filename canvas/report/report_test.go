@@ -27,18 +27,18 @@ func TestExportEveryProduct(t *testing.T) {
 	starts := map[string]string{"png": "\x89PNG", "svg": "<?xml", "pdf": "%PDF", "sheet-pdf": "%PDF", "sheet-png": "\x89PNG", "csv": "# Stave results."}
 	for _, p := range Products {
 		var buf bytes.Buffer
-		if err := Export(context.Background(), &buf, demo(t), p.Name, Options{}); err != nil {
+		if _, err := Export(context.Background(), &buf, demo(t), p.Name, Options{}); err != nil {
 			t.Errorf("Export %s: %v", p.Name, err)
 		} else if !bytes.HasPrefix(buf.Bytes(), []byte(starts[p.Name])) {
 			t.Errorf("Export %s starts with %q, want %q", p.Name, buf.Bytes()[:min(buf.Len(), 8)], starts[p.Name])
 		}
 	}
-	if err := Export(context.Background(), io.Discard, demo(t), "jpeg", Options{}); err == nil || !strings.Contains(err.Error(), "sheet-png") {
+	if _, err := Export(context.Background(), io.Discard, demo(t), "jpeg", Options{}); err == nil || !strings.Contains(err.Error(), "sheet-png") {
 		t.Errorf("an unknown product gave %v, want an error listing the products", err)
 	}
 	ctx, cancel := context.WithCancel(context.Background())
 	cancel()
-	if err := Export(ctx, io.Discard, demo(t), "png", Options{}); err != context.Canceled {
+	if _, err := Export(ctx, io.Discard, demo(t), "png", Options{}); err != context.Canceled {
 		t.Errorf("a cancelled export gave %v, want %v", err, context.Canceled)
 	}
 }
@@ -55,7 +55,7 @@ func TestExportPNGSize(t *testing.T) {
 		{Options{Width: 400, Height: 500, DPI: 300}, 1667, 2083},
 	} {
 		var buf bytes.Buffer
-		if err := Export(context.Background(), &buf, demo(t), "png", c.opts); err != nil {
+		if _, err := Export(context.Background(), &buf, demo(t), "png", c.opts); err != nil {
 			t.Fatalf("%+v: %v", c.opts, err)
 		}
 		cfg, err := png.DecodeConfig(&buf)
@@ -66,7 +66,7 @@ func TestExportPNGSize(t *testing.T) {
 			t.Errorf("%+v: PNG is %d × %d pixels, want %d × %d", c.opts, cfg.Width, cfg.Height, c.width, c.height)
 		}
 	}
-	if err := Export(context.Background(), io.Discard, demo(t), "png", Options{DPI: -1}); err == nil {
+	if _, err := Export(context.Background(), io.Discard, demo(t), "png", Options{DPI: -1}); err == nil {
 		t.Error("a negative density was accepted")
 	}
 }
@@ -80,13 +80,13 @@ func TestExportUnsolvable(t *testing.T) {
 	}
 	p.Model.Supports[0].Kind = fem.Roller
 	var svg bytes.Buffer
-	if err := Export(context.Background(), &svg, p, "svg", Options{}); err != nil {
+	if _, err := Export(context.Background(), &svg, p, "svg", Options{}); err != nil {
 		t.Fatalf("drawing of a mechanism: %v", err)
 	}
 	if !strings.Contains(svg.String(), "free motion") {
 		t.Error("the drawing of a mechanism does not say \"free motion\"")
 	}
-	err = Export(context.Background(), io.Discard, p, "csv", Options{})
+	_, err = Export(context.Background(), io.Discard, p, "csv", Options{})
 	if err == nil || !strings.Contains(err.Error(), "free motion") {
 		t.Errorf("results table of a mechanism gave %v, want an error naming the free motion", err)
 	}

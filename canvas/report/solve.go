@@ -4,9 +4,12 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
+	"strings"
 	"text/tabwriter"
 
 	"stave/fem"
+	"stave/fem/analysis"
+	"stave/fem/check"
 	"stave/fem/units"
 )
 
@@ -17,63 +20,563 @@ func WriteJSON(w io.Writer, v any) error {
 	return enc.Encode(v)
 }
 
-// WriteSummaryJSON writes the summary of the model in file path as JSON, in
-// SI base units, with the caution.
-func WriteSummaryJSON(w io.Writer, path string, s fem.Summary) error {
-	return WriteJSON(w, struct {
-		File    string `json:"file"`
-		Units   string `json:"units"`
-		Caution string `json:"caution"`
-		fem.Summary
-	}{path, "SI base units: m, N, N·m, Pa, rad", fem.Caution, s})
+// The results document of `stave solve --json` (docs/json.md): its format
+// name and version. The version changes when a key changes meaning or goes
+// away; new keys may appear within a version.
+const (
+	ResultsFormat  = "stave-results"
+	ResultsVersion = 1
+)
+
+// resultsDocument is what `stave solve --json` writes: the results of the
+// model under Results and, for a model with load cases, its cases,
+// combinations and their envelope beside them.
+type resultsDocument struct {
+	Format  string `json:"format"`
+	Version int    `json:"version"`
+	File    string `json:"file"`
+	Caution string `json:"caution"`
+	// Solved says there are results; false when the model was refused
+	// (the warnings say why).
+	Solved bool `json:"solved"`
+	// CheckFailed says a check failed or the results are unreliable: the
+	// command exits with status 3.
+	CheckFailed bool `json:"check_failed"`
+	// Headline names the solution the values lead with: "exact" or
+	// "finite_element".
+	Headline string    `json:"headline,omitempty"`
+	Mesh     *meshJSON `json:"mesh,omitempty"`
+	*Results
+	Checks   []checkJSON   `json:"checks"`
+	Warnings []warningJSON `json:"warnings"`
+	// The cases, combinations and envelope of a model with load cases
+	// (cases.go); Results are then of the case or combination shown.
+	*CasesJSON
 }
 
-// WriteSummaryText writes the summary of the model in file path as text
-// tables in units u: mesh, reactions, extremes, equilibrium, the error
-// against the exact solution, warnings and the caution.
-func WriteSummaryText(w io.Writer, path string, s fem.Summary, u units.System) {
-	pos := func(x float64) string { return u.Format(units.Position, x) }
-	force := func(v float64) string { return u.Format(units.Force, v) }
-	moment := func(v float64) string { return u.Format(units.Moment, v) }
-	fmt.Fprintf(w, "Stave %s: %s\n", Version, path)
-	fmt.Fprintf(w, "Mesh: %d elements, %d nodes, bar elements of order %d, condition estimate %.2g\n\n",
-		s.Mesh.Elements, s.Mesh.Nodes, s.Mesh.BarOrder, s.Mesh.Condition)
-	tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', 0)
-	fmt.Fprintln(tw, "Reactions (forces of the supports on the member; +x along the member, up positive, moments counter-clockwise)")
-	fmt.Fprintln(tw, "  support\tkind\tx\taxial\ttransverse\tmoment")
-	for _, r := range s.Reactions {
-		fmt.Fprintf(tw, "  %d\t%s\t%s\t%s\t%s\t%s\n", r.Support, r.Kind, pos(r.X), force(r.Axial), force(r.Transverse), moment(r.Moment))
+// Results are one set of results: reactions, extremes, the actions at the
+// supports inside the member, equilibrium and the error of the finite
+// element answer, each headline value beside its finite element one.
+type Results struct {
+	Reactions      []reactionJSON  `json:"reactions"`
+	Extremes       []extremeJSON   `json:"extremes"`
+	SupportActions []supportJSON   `json:"support_actions"`
+	Equilibrium    equilibriumJSON `json:"equilibrium"`
+	ExactError     *exactErrorJSON `json:"exact_error"`
+}
+
+type meshJSON struct {
+	Elements int `json:"elements"`
+	Nodes    int `json:"nodes"`
+	BarOrder int `json:"bar_order"`
+	// ChosenBy is "stave" (the default mesh rule) or "model" (set in the file).
+	ChosenBy string `json:"chosen_by"`
+	Note     string `json:"note"`
+	// AccuracyTarget is the default mesh's accuracy, a fraction of each
+	// field's largest magnitude; AccuracyReached the largest of the fields'
+	// accuracies (null without an exact solution).
+	AccuracyTarget  float64  `json:"accuracy_target"`
+	AccuracyReached *float64 `json:"accuracy_reached"`
+	Condition       float64  `json:"condition_estimate"`
+}
+
+// comparedJSON is one value: the headline value, the exact and the finite
+// element ones and their difference, with their unit.
+type comparedJSON struct {
+	Value      float64  `json:"value"`
+	Exact      *float64 `json:"exact"`
+	FE         float64  `json:"fe"`
+	Difference *float64 `json:"difference"`
+	Unit       string   `json:"unit"`
+}
+
+type reactionJSON struct {
+	Support    int           `json:"support"`
+	Kind       string        `json:"kind"`
+	X          float64       `json:"x"`
+	XUnit      string        `json:"x_unit"`
+	Axial      *comparedJSON `json:"axial"`
+	Transverse *comparedJSON `json:"transverse"`
+	Moment     *comparedJSON `json:"moment"`
+}
+
+type extremeJSON struct {
+	Quantity string    `json:"quantity"`
+	Name     string    `json:"name"`
+	Max      placeJSON `json:"max"`
+	Min      placeJSON `json:"min"`
+	// Accuracy is how far the finite element extremes are from the exact
+	// ones, a fraction of the field's largest magnitude; null without an
+	// exact solution.
+	Accuracy *float64 `json:"accuracy"`
+}
+
+// placeJSON is an extreme: headline value and place, the exact value, the
+// finite element value and place, and the difference of the values.
+type placeJSON struct {
+	Value      float64  `json:"value"`
+	X          float64  `json:"x"`
+	Exact      *float64 `json:"exact"`
+	FE         float64  `json:"fe"`
+	XFE        float64  `json:"x_fe"`
+	Difference *float64 `json:"difference"`
+	Unit       string   `json:"unit"`
+	XUnit      string   `json:"x_unit"`
+}
+
+type supportJSON struct {
+	Support     int          `json:"support"`
+	Kind        string       `json:"kind"`
+	X           float64      `json:"x"`
+	XUnit       string       `json:"x_unit"`
+	ShearLeft   comparedJSON `json:"shear_left"`
+	ShearRight  comparedJSON `json:"shear_right"`
+	MomentLeft  comparedJSON `json:"moment_left"`
+	MomentRight comparedJSON `json:"moment_right"`
+}
+
+type componentsJSON struct {
+	Axial      float64 `json:"axial"`
+	Transverse float64 `json:"transverse"`
+	Moment     float64 `json:"moment"`
+	ForceUnit  string  `json:"force_unit"`
+	MomentUnit string  `json:"moment_unit"`
+}
+
+type balanceJSON struct {
+	Reactions componentsJSON `json:"reactions"`
+	Residual  componentsJSON `json:"residual"`
+	Relative  float64        `json:"relative"`
+}
+
+type equilibriumJSON struct {
+	Applied componentsJSON `json:"applied"`
+	Exact   *balanceJSON   `json:"exact"`
+	FE      balanceJSON    `json:"fe"`
+}
+
+type exactErrorJSON struct {
+	StressError       float64 `json:"stress_error"`
+	DisplacementError float64 `json:"displacement_error"`
+	EnergyError       float64 `json:"energy_error"`
+	MaxStressError    float64 `json:"max_stress_error"`
+	StressUnit        string  `json:"stress_unit"`
+	MaxStressErrorX   float64 `json:"max_stress_error_x"`
+	XUnit             string  `json:"x_unit"`
+	MaxDeflection     float64 `json:"max_deflection_error"`
+	MaxAxial          float64 `json:"max_axial_displacement_error"`
+	DisplacementUnit  string  `json:"displacement_unit"`
+}
+
+type checkJSON struct {
+	Check   string   `json:"check"`
+	Name    string   `json:"name"`
+	Kind    string   `json:"kind"`
+	Status  string   `json:"status"`
+	Source  string   `json:"source"`
+	Value   float64  `json:"value"`
+	Limit   *float64 `json:"limit"`
+	FE      *float64 `json:"fe"`
+	Unit    string   `json:"unit"`
+	X       float64  `json:"x"`
+	XFE     *float64 `json:"x_fe"`
+	XUnit   string   `json:"x_unit"`
+	Message string   `json:"message"`
+}
+
+type warningJSON struct {
+	Code       string      `json:"code"`
+	Severity   string      `json:"severity"`
+	Unreliable bool        `json:"unreliable"`
+	Check      *string     `json:"check"`
+	Name       string      `json:"name"`
+	Message    string      `json:"message"`
+	X          *float64    `json:"x"`
+	Span       *[2]float64 `json:"span"`
+	XUnit      string      `json:"x_unit"`
+}
+
+// headlineName names the solution the headline values are from.
+func headlineName(exact bool) string {
+	if exact {
+		return "exact"
 	}
-	tw.Flush()
-	fmt.Fprintln(tw, "\nExtremes along the member")
-	fmt.Fprintln(tw, "  quantity\tlargest\tat x\tsmallest\tat x")
+	return "finite_element"
+}
+
+// jsonName is a quantity's name as a snake_case JSON value.
+func jsonName(q fem.Quantity) string { return strings.ReplaceAll(q.Info().Name, " ", "_") }
+
+// compared is a headline value v beside the finite element value fe.
+func compared(exact bool, v, fe float64, unit string) comparedJSON {
+	c := comparedJSON{Value: v, FE: fe, Unit: unit}
+	if exact {
+		d := fe - v
+		c.Exact, c.Difference = &v, &d
+	}
+	return c
+}
+
+func componentsOf(c fem.Components) componentsJSON {
+	return componentsJSON{c.Axial, c.Transverse, c.Moment, "N", "N·m"}
+}
+
+func balanceOf(e fem.EquilibriumSummary) balanceJSON {
+	return balanceJSON{componentsOf(e.Reactions), componentsOf(e.Residual), e.Relative}
+}
+
+// resultsOf is the summary s as one set of results.
+func resultsOf(s fem.Summary) *Results {
+	r := &Results{Reactions: []reactionJSON{}, Extremes: []extremeJSON{}, SupportActions: []supportJSON{}}
+	for _, x := range s.Reactions {
+		j := reactionJSON{Support: x.Support, Kind: x.Kind, X: x.X, XUnit: "m"}
+		held := func(d fem.Dof, v, fe float64, unit string) *comparedJSON {
+			if !x.Holds[d] {
+				return nil
+			}
+			c := compared(s.Exact, v, fe, unit)
+			return &c
+		}
+		j.Axial = held(fem.Axial, x.Axial, x.FE.Axial, "N")
+		j.Transverse = held(fem.Transverse, x.Transverse, x.FE.Transverse, "N")
+		j.Moment = held(fem.Rotation, x.Moment, x.FE.Moment, "N·m")
+		r.Reactions = append(r.Reactions, j)
+	}
 	for _, e := range s.Extremes {
-		q := e.Quantity.Info()
-		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\n", q.Name, u.Format(q.Unit, e.Max), pos(e.XMax), u.Format(q.Unit, e.Min), pos(e.XMin))
+		place := func(v, x, fe, xfe float64) placeJSON {
+			c := compared(s.Exact, v, fe, e.Unit)
+			return placeJSON{Value: v, X: x, Exact: c.Exact, FE: fe, XFE: xfe, Difference: c.Difference, Unit: e.Unit, XUnit: "m"}
+		}
+		j := extremeJSON{Quantity: jsonName(e.Quantity), Name: e.Quantity.Info().Name,
+			Max: place(e.Max, e.XMax, e.FEMax, e.FEXMax), Min: place(e.Min, e.XMin, e.FEMin, e.FEXMin)}
+		if s.Exact {
+			a := e.Accuracy
+			j.Accuracy = &a
+		}
+		r.Extremes = append(r.Extremes, j)
 	}
-	tw.Flush()
-	eq := s.Equilibrium
-	fmt.Fprintln(tw, "\nEquilibrium (applied loads + reactions must be zero)")
-	fmt.Fprintln(tw, "  \tapplied\treactions\tresidual")
-	fmt.Fprintf(tw, "  axial force\t%s\t%s\t%s\n", force(eq.Applied.Axial), force(eq.Reactions.Axial), force(eq.Residual.Axial))
-	fmt.Fprintf(tw, "  transverse force\t%s\t%s\t%s\n", force(eq.Applied.Transverse), force(eq.Reactions.Transverse), force(eq.Residual.Transverse))
-	fmt.Fprintf(tw, "  moment about x = 0\t%s\t%s\t%s\n", moment(eq.Applied.Moment), moment(eq.Reactions.Moment), moment(eq.Residual.Moment))
-	tw.Flush()
-	fmt.Fprintf(w, "  largest residual relative to the loads: %.1e\n", eq.Relative)
+	for _, a := range s.Supports {
+		r.SupportActions = append(r.SupportActions, supportJSON{Support: a.Support, Kind: a.Kind, X: a.X, XUnit: "m",
+			ShearLeft:   compared(s.Exact, a.Shear[0], a.FEShear[0], "N"),
+			ShearRight:  compared(s.Exact, a.Shear[1], a.FEShear[1], "N"),
+			MomentLeft:  compared(s.Exact, a.Moment[0], a.FEMoment[0], "N·m"),
+			MomentRight: compared(s.Exact, a.Moment[1], a.FEMoment[1], "N·m")})
+	}
+	r.Equilibrium = equilibriumJSON{Applied: componentsOf(s.FEEquilibrium.Applied), FE: balanceOf(s.FEEquilibrium)}
+	if s.Exact {
+		b := balanceOf(s.Equilibrium)
+		r.Equilibrium.Exact = &b
+	}
 	if e := s.ExactError; e != nil {
-		fmt.Fprintln(tw, "\nError of the finite element answer against the exact solution of the same model")
-		fmt.Fprintf(tw, "  largest deflection error\t%s\n", u.Format(units.Deflection, e.MaxDeflection))
-		fmt.Fprintf(tw, "  largest axial displacement error\t%s\n", u.Format(units.Deflection, e.MaxAxial))
-		fmt.Fprintf(tw, "  largest stress error\t%s (%.3g %% of the largest stress)\n", u.Format(units.Stress, e.MaxStress), 100*e.MaxStressRelative)
-		fmt.Fprintf(tw, "  relative L2 error of displacements\t%.3g\n", e.RelativeL2)
-		fmt.Fprintf(tw, "  relative energy-norm error\t%.3g\n", e.RelativeEnergy)
-		tw.Flush()
+		r.ExactError = &exactErrorJSON{StressError: e.MaxStressRelative, DisplacementError: e.RelativeL2, EnergyError: e.RelativeEnergy,
+			MaxStressError: e.MaxStress, StressUnit: "Pa", MaxStressErrorX: e.MaxStressAt, XUnit: "m",
+			MaxDeflection: e.MaxDeflection, MaxAxial: e.MaxAxial, DisplacementUnit: "m"}
 	}
-	if len(s.Warnings) > 0 {
-		fmt.Fprintln(w, "\nWarnings")
-		for _, m := range s.Warnings {
-			fmt.Fprintln(w, "  -", m)
+	return r
+}
+
+// meshOf is the mesh part of the document.
+func meshOf(s fem.Summary) *meshJSON {
+	m := &meshJSON{Elements: s.Mesh.Elements, Nodes: s.Mesh.Nodes, BarOrder: s.Mesh.BarOrder, ChosenBy: "model",
+		Note: s.Mesh.Note, AccuracyTarget: fem.MeshAccuracy, Condition: s.Mesh.Condition}
+	if s.Mesh.Automatic {
+		m.ChosenBy = "stave"
+	} else if m.Note == "" {
+		m.Note = "set in the model"
+	}
+	if w, ok := s.Worst(); ok {
+		m.AccuracyReached = &w.Accuracy
+	}
+	return m
+}
+
+var kindNames = [...]string{check.Design: "design", check.Verification: "verification"}
+
+// checksOf lists the checks of a.
+func checksOf(a *analysis.Analysis) []checkJSON {
+	out := []checkJSON{}
+	for _, r := range a.Checks {
+		j := checkJSON{Check: r.Code, Name: r.Name, Kind: kindNames[r.Kind], Status: r.Status.String(),
+			Source: headlineName(r.Exact), Value: r.Value, Unit: r.Unit, X: r.X, XUnit: "m", Message: r.Message}
+		if r.Status != check.Info {
+			limit := r.Limit
+			j.Limit = &limit
+		}
+		if r.HasFE {
+			fe, x := r.FE, r.FEX
+			j.FE, j.XFE = &fe, &x
+		}
+		out = append(out, j)
+	}
+	return out
+}
+
+// warningsOf lists the warnings among findings fs (analysis.Warnings).
+func warningsOf(fs []analysis.Finding) []warningJSON {
+	out := []warningJSON{}
+	for _, f := range analysis.Warnings(fs) {
+		j := warningJSON{Code: string(f.Code), Severity: f.Severity.Name(), Unreliable: f.Doubtful, Name: f.Name, Message: f.Message, XUnit: "m"}
+		if f.Check != "" {
+			c := f.Check
+			j.Check = &c
+		}
+		if f.Located {
+			x := f.At
+			j.X = &x
+		}
+		if f.Span != [2]float64{} {
+			s := f.Span
+			j.Span = &s
+		}
+		out = append(out, j)
+	}
+	return out
+}
+
+// WriteSolveJSON writes the results of src's analysis of the model in file
+// path as the results document (docs/json.md), in SI units, with every
+// check and every warning; a model that was refused gives a document with
+// no results and the warnings that say why.
+func WriteSolveJSON(w io.Writer, path string, src Source) error {
+	a := src.Analysis
+	doc := resultsDocument{Format: ResultsFormat, Version: ResultsVersion, File: path, Caution: fem.Caution,
+		Solved: a.Solution != nil, CheckFailed: a.Solution != nil && analysis.Failed(src.Findings),
+		Checks: checksOf(a), Warnings: warningsOf(src.Findings)}
+	if a.Solution != nil {
+		sum := a.Summary()
+		doc.Headline, doc.Mesh, doc.Results = headlineName(sum.Exact), meshOf(sum), resultsOf(sum)
+		cases, err := CasesResults(a)
+		if err != nil {
+			return err
+		}
+		doc.CasesJSON = cases
+	}
+	return WriteJSON(w, doc)
+}
+
+// WriteSolveText writes the results of src's analysis of the model in file
+// path as text tables in src's units: mesh and accuracy, reactions,
+// extremes, the actions at the supports inside the member, equilibrium,
+// the error of the finite element answer, the checks, the warnings and the
+// caution. Every value is the exact solution's, with the finite element
+// one beside it, unless there is no exact solution: then the values are
+// the finite element ones, labelled FE. src's analysis must have a solution.
+func WriteSolveText(w io.Writer, path string, src Source) {
+	fmt.Fprintf(w, "Stave %s: %s\n", Version, path)
+	WriteResultsText(w, src)
+	fmt.Fprintln(w, "\nCaution:", fem.Caution)
+}
+
+// WriteResultsText writes what WriteSolveText writes between its title and
+// the caution: the results, the checks and the warnings. src's analysis
+// must have a solution.
+func WriteResultsText(w io.Writer, src Source) {
+	u := src.Units
+	sum := src.Analysis.Summary()
+	WriteMeshText(w, sum)
+	feBeside := sum.Exact
+	if !sum.Exact {
+		fmt.Fprintln(w, "There is no exact solution of this model: every value below is the finite element (FE) one.")
+	} else {
+		fmt.Fprintln(w, "Values are the exact solution of the model; FE is the finite element answer on this mesh beside it, FE − exact their difference.")
+	}
+	pos := func(x float64) string { return u.Format(units.Position, x) }
+	tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', 0)
+	columns := func(first string) string {
+		if feBeside {
+			return first + "\texact\tFE\tFE − exact"
+		}
+		return first + "\tFE"
+	}
+	values := func(k units.Kind, v, fe float64) string {
+		if feBeside {
+			return fmt.Sprintf("%s\t%s\t%s", u.Format(k, v), u.Format(k, fe), u.Format(k, fe-v))
+		}
+		return u.Format(k, fe)
+	}
+
+	fmt.Fprintln(tw, "\nReactions (forces of the supports on the member; +x along the member, up positive, moments counter-clockwise)")
+	fmt.Fprintln(tw, columns("  support\tkind\tx\tcomponent"))
+	for _, r := range sum.Reactions {
+		lead := fmt.Sprintf("  %d\t%s\t%s", r.Support, r.Kind, pos(r.X))
+		for _, c := range []struct {
+			name    string
+			kind    units.Kind
+			v, fe   float64
+			holding bool
+		}{
+			{"axial", units.Force, r.Axial, r.FE.Axial, r.Holds[fem.Axial]},
+			{"transverse", units.Force, r.Transverse, r.FE.Transverse, r.Holds[fem.Transverse]},
+			{"moment", units.Moment, r.Moment, r.FE.Moment, r.Holds[fem.Rotation]},
+		} {
+			if !c.holding {
+				continue
+			}
+			fmt.Fprintf(tw, "%s\t%s\t%s\n", lead, c.name, values(c.kind, c.v, c.fe))
+			lead = "  \t\t" // the support once, on its first component
 		}
 	}
-	fmt.Fprintln(w, "\nCaution:", fem.Caution)
+	tw.Flush()
+
+	fmt.Fprintln(tw, "\nExtremes along the member")
+	if feBeside {
+		fmt.Fprintln(tw, "  quantity\t\texact\tat x\tFE\tat x\tFE − exact\tFE accuracy")
+	} else {
+		fmt.Fprintln(tw, "  quantity\t\tFE\tat x")
+	}
+	for _, e := range sum.Extremes {
+		q := e.Quantity.Info()
+		for i, x := range [2]struct {
+			which           string
+			v, at, fe, feAt float64
+		}{{"largest", e.Max, e.XMax, e.FEMax, e.FEXMax}, {"smallest", e.Min, e.XMin, e.FEMin, e.FEXMin}} {
+			name := q.Name
+			if i > 0 {
+				name = ""
+			}
+			if !feBeside {
+				fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\n", name, x.which, u.Format(q.Unit, x.fe), pos(x.feAt))
+				continue
+			}
+			accuracy := ""
+			if i == 0 {
+				accuracy = percent(e.Accuracy)
+			}
+			fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", name, x.which, u.Format(q.Unit, x.v), pos(x.at),
+				u.Format(q.Unit, x.fe), pos(x.feAt), u.Format(q.Unit, x.fe-x.v), accuracy)
+		}
+	}
+	tw.Flush()
+	if feBeside {
+		fmt.Fprintln(w, "  FE accuracy: the larger |FE − exact| of the two extremes, as a share of the field's largest magnitude.")
+	}
+
+	if len(sum.Supports) > 0 {
+		fmt.Fprintln(tw, "\nShear force and bending moment at the supports inside the member, just left and just right")
+		fmt.Fprintln(tw, columns("  support\tkind\tx\tquantity"))
+		for _, a := range sum.Supports {
+			lead := fmt.Sprintf("  %d\t%s\t%s", a.Support, a.Kind, pos(a.X))
+			for k, side := range [2]string{"left", "right"} {
+				fmt.Fprintf(tw, "%s\tshear force, %s\t%s\n", lead, side, values(units.Force, a.Shear[k], a.FEShear[k]))
+				lead = "  \t\t"
+			}
+			for k, side := range [2]string{"left", "right"} {
+				fmt.Fprintf(tw, "%s\tbending moment, %s\t%s\n", lead, side, values(units.Moment, a.Moment[k], a.FEMoment[k]))
+			}
+		}
+		tw.Flush()
+	}
+
+	writeEquilibriumText(w, tw, sum, u)
+	if e := sum.ExactError; e != nil {
+		WriteErrorText(w, *e, u)
+	}
+	writeChecksText(w, src)
+}
+
+// percent writes a fraction as a percentage with three figures.
+func percent(v float64) string { return fmt.Sprintf("%.3g %%", 100*v) }
+
+// WriteMeshText writes the line on the mesh: its size, who chose it and
+// how, and the accuracy its extremes reach against the exact ones.
+func WriteMeshText(w io.Writer, sum fem.Summary) {
+	fmt.Fprintf(w, "Mesh: %d elements, %d nodes, bar elements of order %d, condition estimate %.2g\n",
+		sum.Mesh.Elements, sum.Mesh.Nodes, sum.Mesh.BarOrder, sum.Mesh.Condition)
+	fmt.Fprintln(w, "  "+analysis.MeshChoice(sum))
+}
+
+// writeEquilibriumText writes the balance of loads and reactions, of the
+// exact and of the finite element reactions.
+func writeEquilibriumText(w io.Writer, tw *tabwriter.Writer, sum fem.Summary, u units.System) {
+	force := func(v float64) string { return u.Format(units.Force, v) }
+	moment := func(v float64) string { return u.Format(units.Moment, v) }
+	eq, fe := sum.Equilibrium, sum.FEEquilibrium
+	fmt.Fprintln(tw, "\nEquilibrium (applied loads + reactions must be zero)")
+	if sum.Exact {
+		fmt.Fprintln(tw, "  \tapplied\texact reactions\tresidual\tFE reactions\tresidual")
+		fmt.Fprintf(tw, "  axial force\t%s\t%s\t%s\t%s\t%s\n", force(eq.Applied.Axial), force(eq.Reactions.Axial), force(eq.Residual.Axial), force(fe.Reactions.Axial), force(fe.Residual.Axial))
+		fmt.Fprintf(tw, "  transverse force\t%s\t%s\t%s\t%s\t%s\n", force(eq.Applied.Transverse), force(eq.Reactions.Transverse), force(eq.Residual.Transverse), force(fe.Reactions.Transverse), force(fe.Residual.Transverse))
+		fmt.Fprintf(tw, "  moment about x = 0\t%s\t%s\t%s\t%s\t%s\n", moment(eq.Applied.Moment), moment(eq.Reactions.Moment), moment(eq.Residual.Moment), moment(fe.Reactions.Moment), moment(fe.Residual.Moment))
+		tw.Flush()
+		fmt.Fprintf(w, "  largest residual relative to the loads: exact %.1e, FE %.1e\n", eq.Relative, fe.Relative)
+		return
+	}
+	fmt.Fprintln(tw, "  \tapplied\tFE reactions\tresidual")
+	fmt.Fprintf(tw, "  axial force\t%s\t%s\t%s\n", force(fe.Applied.Axial), force(fe.Reactions.Axial), force(fe.Residual.Axial))
+	fmt.Fprintf(tw, "  transverse force\t%s\t%s\t%s\n", force(fe.Applied.Transverse), force(fe.Reactions.Transverse), force(fe.Residual.Transverse))
+	fmt.Fprintf(tw, "  moment about x = 0\t%s\t%s\t%s\n", moment(fe.Applied.Moment), moment(fe.Reactions.Moment), moment(fe.Residual.Moment))
+	tw.Flush()
+	fmt.Fprintf(w, "  largest residual relative to the loads: %.1e\n", fe.Relative)
+}
+
+// WriteErrorText writes the three error measures of the finite element
+// answer against the exact solution, in words, and the largest errors.
+func WriteErrorText(w io.Writer, e fem.ErrorNorms, u units.System) {
+	tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', 0)
+	fmt.Fprintln(tw, "\nHow far the finite element answer is from the exact solution of the same model")
+	fmt.Fprintf(tw, "  %s, as a share of the largest stress\t%s (near x = %s)\n", fem.StressErrorName, percent(e.MaxStressRelative), u.Format(units.Position, e.MaxStressAt))
+	fmt.Fprintf(tw, "  %s, as a share of the displacements\t%s\n", fem.DisplacementErrorName, percent(e.RelativeL2))
+	fmt.Fprintf(tw, "  %s (strain energy of the difference), as a share of the strain energy\t%s\n", fem.EnergyErrorName, percent(e.RelativeEnergy))
+	fmt.Fprintf(tw, "  largest errors\tstress %s, deflection %s, axial displacement %s\n", u.Format(units.Stress, e.MaxStress),
+		u.Format(units.Deflection, e.MaxDeflection), u.Format(units.Deflection, e.MaxAxial))
+	tw.Flush()
+}
+
+// siKinds are the display kinds of the SI units checks give their values in.
+var siKinds = map[string]units.Kind{"Pa": units.Stress, "m": units.Deflection, "N": units.Force, "N·m": units.Moment, "rad": units.Rotation}
+
+// checkValue is the value of check r in units u, with the finite element
+// value beside an exact one.
+func checkValue(r check.Result, u units.System) string {
+	k, ok := siKinds[r.Unit]
+	if r.Code == check.CodeEquilibrium && ok {
+		return fmt.Sprintf("applied %s, reactions %s", u.Format(k, r.Value), u.Format(k, -r.Limit))
+	}
+	if !ok {
+		switch {
+		case r.Code == check.CodeExactError && r.Status == check.Info:
+			return "not measured"
+		case r.Code == check.CodeExactError:
+			return percent(r.Value)
+		}
+		return ""
+	}
+	s := u.Format(k, r.Value)
+	if r.HasFE {
+		s += " exact, FE " + u.Format(k, r.FE)
+	} else if !r.Exact && r.Kind == check.Design {
+		s += " FE"
+	}
+	return s
+}
+
+// writeChecksText writes every check of src on one line each, then the
+// warnings in full.
+func writeChecksText(w io.Writer, src Source) {
+	a, u := src.Analysis, src.Units
+	fmt.Fprintln(w, "\nChecks")
+	tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', 0)
+	for _, r := range a.Checks {
+		status := r.Status.String()
+		if r.Kind == check.Design && r.Status == check.Pass {
+			status = "within limit"
+		}
+		fmt.Fprintf(tw, "  %s\t%s\t%s\n", status, r.Name, checkValue(r, u))
+	}
+	tw.Flush()
+	WriteWarningsText(w, src.Findings)
+}
+
+// WriteWarningsText writes the warnings among findings fs, each with its
+// code, or says there are none.
+func WriteWarningsText(w io.Writer, fs []analysis.Finding) {
+	ws := analysis.Warnings(fs)
+	if len(ws) == 0 {
+		fmt.Fprintln(w, "\nWarnings: none")
+		return
+	}
+	fmt.Fprintln(w, "\nWarnings")
+	for _, f := range ws {
+		fmt.Fprintf(w, "  - [%s] %s\n", f.Code, f.Sentence())
+	}
 }

@@ -6,18 +6,21 @@ import (
 	"io"
 
 	"stave/canvas/report"
+	"stave/fem/analysis"
 	"stave/fem/study"
 	"stave/storage"
 )
 
 // convergeCommand prints a convergence study of a model against its exact
-// solution and, with --target, an adaptive refinement beside uniform refinement.
+// solution and, with --target, an adaptive refinement beside uniform
+// refinement, with the warnings of the model analysed on its own mesh (as
+// `stave solve` analyses it); exit status 3 when a check of that fails.
 func convergeCommand(args []string, stdout io.Writer) error {
 	fs := newFlagSet("converge")
 	asJSON := fs.Bool("json", false, "print the study as JSON")
 	maxPer := fs.Int("max", 64, "finest mesh: elements in every stretch between key points")
 	target := fs.Float64("target", 0, "also refine adaptively until the estimated relative energy error is below this (e.g. 0.01)")
-	path, err := parseOneFile(fs, args)
+	path, err := parseOneFile(fs, args, stdout)
 	if err != nil {
 		return err
 	}
@@ -41,9 +44,17 @@ func convergeCommand(args []string, stdout io.Writer) error {
 		}
 		versus = &v
 	}
-	if *asJSON {
-		return report.WriteConvergenceJSON(stdout, path, table, versus)
+	a, err := analysis.Run(ctx, report.Request(p, nil))
+	if err != nil {
+		return err
 	}
-	report.WriteConvergenceText(stdout, path, table, versus)
-	return nil
+	findings := a.Findings()
+	if *asJSON {
+		if err := report.WriteConvergenceJSON(stdout, path, table, versus, findings); err != nil {
+			return err
+		}
+	} else {
+		report.WriteConvergenceText(stdout, path, table, versus, findings)
+	}
+	return failures(path, findings)
 }

@@ -17,7 +17,9 @@ import (
 )
 
 // exportCommand writes the drawing and its results, a calculation sheet or a
-// CSV table of the sampled fields, without opening a window.
+// CSV table of the sampled fields, without opening a window. A model that
+// cannot be solved still gets its drawing or sheet, which shows the
+// problem, and exits 1; results whose checks fail are written and exit 3.
 func exportCommand(args []string, stdout io.Writer) error {
 	fs := newFlagSet("export")
 	out := fs.String("out", "", "output file: NAME.png, NAME.svg, NAME.pdf or NAME.csv")
@@ -27,7 +29,8 @@ func exportCommand(args []string, stdout io.Writer) error {
 	height := fs.Float64("height", 0, "drawing height in points (default 800)")
 	points := fs.Int("points", 0, "CSV only: sample each element at N+1 evenly spaced points, both ends included (default 4; fewer from 20,000 elements on)")
 	system := fs.String("units", "", "unit system of the output: SI or US (default: the file's display units)")
-	path, err := parseOneFile(fs, args)
+	show := fs.String("show", "", "a model with load cases: draw one case or combination by NAME, or the envelope (the default)")
+	path, err := parseOneFile(fs, args, stdout)
 	if err != nil {
 		return err
 	}
@@ -62,14 +65,23 @@ func exportCommand(args []string, stdout io.Writer) error {
 	if err != nil {
 		return modelError{err}
 	}
+	if opts.Show, err = showFlag(&p.Model, *show); err != nil {
+		return err
+	}
+	var src report.Source
 	n, err := writeExport(*out, func(w io.Writer) error {
-		return report.Export(context.Background(), w, p, kind, opts)
+		var err error
+		src, err = report.Export(context.Background(), w, p, kind, opts)
+		return err
 	})
 	if err != nil {
 		return modelError{fmt.Errorf("%s: %w", path, err)}
 	}
 	fmt.Fprintf(stdout, "wrote %s (%d bytes)\n", *out, n)
-	return nil
+	if a := src.Analysis; a != nil && a.Err != nil {
+		return modelError{fmt.Errorf("%s: the model cannot be solved, so %s shows the problem instead of results: %w", path, *out, a.Err)}
+	}
+	return failures(path, src.Findings)
 }
 
 // set reports whether the flag name was given on the command line.

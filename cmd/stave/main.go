@@ -3,14 +3,20 @@
 // With no arguments it opens the window on the built-in demo model; with a
 // file it opens that file. The subcommands work without a display:
 //
-//	stave solve [--json] [--units SI|US] FILE
-//	stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet] [--dpi N] [--points N] [--units SI|US]
-//	stave converge [--json] [--max N] FILE
+//	stave solve [--json] [--units SI|US] [--show NAME] FILE
+//	stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet] [--dpi N] [--points N] [--units SI|US] [--show NAME]
+//	stave converge [--json] [--max N] [--target E] FILE
+//	stave check [--json | --csv] [--workers N] FILE... | DIR
 //	stave bench [--json]
 //	stave version
 //
-// Exit status: 0 on success, 1 when the model is wrong (the message names the
-// offending item), 2 on misuse of the command line.
+// Exit status: 0 when the model is solved and no check failed; 3 when it is
+// solved and the results are written but a check failed or the results are
+// unreliable (the warnings say why); 1 when the model is refused (the
+// message names the offending item; export still writes the drawing of the
+// problem); 2 on misuse of the command line. check exits with its worst
+// member's: 1 when any was refused, else 3 when any failed a check.
+// `COMMAND --help` lists a command's flags and exits 0.
 package main
 
 import (
@@ -18,9 +24,11 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"strings"
 
 	"stave/canvas/report"
 	_ "stave/cmd/stave/internal/plainlocale" // before the GUI toolkit reads the locale
+	"stave/fem/analysis"
 )
 
 // version is the Stave release; it also appears on calculation sheets.
@@ -37,14 +45,50 @@ type modelError struct{ err error }
 func (e modelError) Error() string { return e.err.Error() }
 func (e modelError) Unwrap() error { return e.err }
 
+// checkFailed marks results that were written but did not pass their
+// checks (exit status 3): what failed, one finding per line.
+type checkFailed struct {
+	path     string
+	failures []string
+}
+
+func (e checkFailed) Error() string {
+	return fmt.Sprintf("%s: solved and written, but a check failed or the results are unreliable (the warnings say why):\n  %s",
+		e.path, strings.Join(e.failures, "\n  "))
+}
+
+// failures is the checkFailed error for findings fs when they fail
+// (analysis.Failed), nil otherwise.
+func failures(path string, fs []analysis.Finding) error {
+	if !analysis.Failed(fs) {
+		return nil
+	}
+	var out []string
+	for _, f := range analysis.Warnings(fs) {
+		if f.Severity == analysis.Fail || f.Doubtful {
+			out = append(out, fmt.Sprintf("[%s] %s — %s", f.Code, f.Status, f.Name))
+		}
+	}
+	return checkFailed{path, out}
+}
+
+// helpShown says a command printed its flags because --help asked (exit status 0).
+var helpShown = errors.New("help shown")
+
 const usage = `usage:
   stave [FILE]                         open the window (on the demo model without FILE)
-  stave solve [--json] [--units SI|US] FILE
+  stave solve [--json] [--units SI|US] [--show NAME] FILE
   stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet] [--dpi N]
-               [--points N] [--units SI|US]
-  stave converge [--json] [--max N] FILE
+               [--points N] [--units SI|US] [--show NAME]
+  stave converge [--json] [--max N] [--target E] FILE
+  stave check [--json | --csv] [--workers N] FILE... | DIR
   stave bench [--json]
   stave version
+  stave COMMAND --help                 the flags of a command
+
+exit status: 0 solved, no check failed; 3 solved and written, but a check failed
+(the warnings say why); 1 model refused; 2 command line misused; check: the
+worst member's
 `
 
 // The calculation sheets and the solve text name the version, from the
@@ -58,14 +102,22 @@ func main() {
 // run dispatches one command line and returns the exit status.
 func run(args []string, stdout, stderr io.Writer) int {
 	err := dispatch(args, stdout)
-	if err == nil {
+	if err == nil || errors.Is(err, helpShown) {
 		return 0
 	}
 	fmt.Fprintln(stderr, "stave:", err)
 	var ue usageError
-	if errors.As(err, &ue) {
+	var cf checkFailed
+	switch {
+	case errors.As(err, &ue):
 		fmt.Fprint(stderr, usage)
 		return 2
+	case errors.As(err, &cf):
+		return 3
+	}
+	var se statusError
+	if errors.As(err, &se) {
+		return se.status
 	}
 	return 1
 }
@@ -81,6 +133,8 @@ func dispatch(args []string, stdout io.Writer) error {
 		return exportCommand(args[1:], stdout)
 	case "converge":
 		return convergeCommand(args[1:], stdout)
+	case "check":
+		return checkCommand(args[1:], stdout, os.Stderr)
 	case "bench":
 		return benchCommand(args[1:], stdout)
 	case "version", "--version":

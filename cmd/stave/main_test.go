@@ -3,13 +3,17 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"fmt"
 	"image/png"
 	"math"
 	"os"
 	"path/filepath"
 	"regexp"
+	"slices"
 	"strings"
 	"testing"
+
+	"stave/fem"
 )
 
 // runStave runs one command line and returns exit status, stdout and stderr.
@@ -22,24 +26,49 @@ func runStave(t *testing.T, args ...string) (int, string, string) {
 
 func TestSolveJSONCantilever(t *testing.T) {
 	code, out, stderr := runStave(t, "solve", "--json", "../../testdata/cantilever_tip_load.json")
-	if code != 0 {
-		t.Fatalf("exit %d, stderr %s", code, stderr)
+	// Its 133 mm tip deflection is beyond length/180 = 22.2 mm (common
+	// practice for cantilevers): solved and written, a check failed.
+	if code != 3 || !strings.Contains(stderr, "[design_fail]") || !strings.Contains(stderr, "Deflection, cantilever") {
+		t.Fatalf("exit %d, want 3 for the failed deflection check; stderr %s", code, stderr)
 	}
 	var got struct {
+		Format    string `json:"format"`
+		Version   int    `json:"version"`
+		Solved    bool   `json:"solved"`
+		Failed    bool   `json:"check_failed"`
+		Headline  string `json:"headline"`
 		Reactions []struct {
-			Transverse, Moment float64
+			Axial, Transverse, Moment *struct {
+				Value, FE float64
+				Exact     *float64
+			}
 		} `json:"reactions"`
 		Extremes []struct {
 			Quantity string
-			Min      float64
-			XMin     float64 `json:"x_min"`
+			Min      struct {
+				Value, X, FE float64
+				Exact        *float64
+				XFE          float64 `json:"x_fe"`
+			}
 		} `json:"extremes"`
-		Equilibrium struct{ Relative float64 }    `json:"equilibrium"`
-		ExactError  *struct{ RelativeL2 float64 } `json:"exact_error"`
-		Mesh        struct{ Elements int }        `json:"mesh"`
+		Equilibrium struct {
+			Exact struct{ Relative float64 }
+			FE    struct{ Relative float64 }
+		} `json:"equilibrium"`
+		ExactError *struct {
+			Displacement float64 `json:"displacement_error"`
+		} `json:"exact_error"`
+		Mesh struct {
+			Elements int
+			ChosenBy string `json:"chosen_by"`
+		} `json:"mesh"`
+		Warnings []struct{ Code string } `json:"warnings"`
 	}
 	if err := json.Unmarshal([]byte(out), &got); err != nil {
 		t.Fatalf("output is not JSON: %v\n%s", err, out)
+	}
+	if got.Format != "stave-results" || got.Version != 1 || !got.Solved || !got.Failed || got.Headline != "exact" {
+		t.Errorf("header: format %q version %d solved %v check_failed %v headline %q", got.Format, got.Version, got.Solved, got.Failed, got.Headline)
 	}
 	// Cantilever, L = 4 m, tip force P = 10 kN down, E = 200 GPa, I = 8e-6 m⁴:
 	// root reaction P up and moment P·L, tip deflection P·L³/(3·E·I) = 0.1333 m down.
@@ -48,27 +77,36 @@ func TestSolveJSONCantilever(t *testing.T) {
 	if len(got.Reactions) != 1 {
 		t.Fatalf("want 1 reaction, got %d", len(got.Reactions))
 	}
-	near(t, "root reaction", got.Reactions[0].Transverse, P, 1e-9)
-	near(t, "root moment", got.Reactions[0].Moment, P*L, 1e-9)
+	r := got.Reactions[0]
+	if r.Transverse == nil || r.Moment == nil || r.Axial == nil || r.Transverse.Exact == nil {
+		t.Fatalf("a fixed end holds all three components, each with its exact value: %+v", r)
+	}
+	near(t, "root reaction", r.Transverse.Value, P, 1e-9)
+	near(t, "root reaction, FE", r.Transverse.FE, P, 1e-9)
+	near(t, "root moment", r.Moment.Value, P*L, 1e-9)
 	found := false
 	for _, e := range got.Extremes {
-		if e.Quantity == "Deflection" {
+		if e.Quantity == "deflection" {
 			found = true
-			near(t, "tip deflection", e.Min, -P*L*L*L/(3*E*I), 1e-9)
-			near(t, "position of tip deflection", e.XMin, L, 1e-12)
+			near(t, "tip deflection", e.Min.Value, -P*L*L*L/(3*E*I), 1e-9)
+			near(t, "tip deflection, FE", e.Min.FE, -P*L*L*L/(3*E*I), 1e-9)
+			near(t, "position of tip deflection", e.Min.X, L, 1e-12)
 		}
 	}
 	if !found {
 		t.Error("no deflection extreme in the output")
 	}
-	if got.Equilibrium.Relative > 1e-12 {
-		t.Errorf("equilibrium residual %g is not round-off", got.Equilibrium.Relative)
+	if got.Equilibrium.Exact.Relative > 1e-12 || got.Equilibrium.FE.Relative > 1e-12 {
+		t.Errorf("equilibrium residuals %+v are not round-off", got.Equilibrium)
 	}
-	if got.ExactError == nil {
-		t.Error("exact_error missing")
+	if got.ExactError == nil || got.ExactError.Displacement > 1e-12 {
+		t.Errorf("exact_error %+v: point loads only, the elements are exact", got.ExactError)
 	}
-	if got.Mesh.Elements != 4 {
-		t.Errorf("mesh elements = %d, the file asks for 4", got.Mesh.Elements)
+	if got.Mesh.Elements != 4 || got.Mesh.ChosenBy != "model" {
+		t.Errorf("mesh %+v, the file asks for 4 elements", got.Mesh)
+	}
+	if len(got.Warnings) == 0 || got.Warnings[0].Code != "design_fail" {
+		t.Errorf("warnings %+v, want the design failure first", got.Warnings)
 	}
 }
 
@@ -84,7 +122,8 @@ func TestSolveTextNamesEverySection(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("exit %d, stderr %s", code, stderr)
 	}
-	for _, want := range []string{"Reactions", "Extremes", "Equilibrium", "exact solution", "Caution", "kN·m"} {
+	for _, want := range []string{"Mesh", "Reactions", "Extremes", "supports inside the member", "Equilibrium", "exact solution",
+		fem.StressErrorName, fem.DisplacementErrorName, fem.EnergyErrorName, "Checks", "Warnings: none", "Caution", "kN·m"} {
 		if !strings.Contains(out, want) {
 			t.Errorf("text summary lacks %q", want)
 		}
@@ -236,7 +275,8 @@ func TestExportCSVPointsAndUnits(t *testing.T) {
 		{[]string{"--points", "7", "--units", "SI"}, "SI", 8},
 	} {
 		args := append([]string{"export", "../../testdata/cantilever_tip_load.json", "--out", out}, c.args...)
-		if code, _, stderr := runStave(t, args...); code != 0 {
+		// The cantilever fails its deflection check: written, exit 3.
+		if code, _, stderr := runStave(t, args...); code != 3 {
 			t.Fatalf("%v: exit %d: %s", c.args, code, stderr)
 		}
 		data, err := os.ReadFile(out)
@@ -246,6 +286,11 @@ func TestExportCSVPointsAndUnits(t *testing.T) {
 		text := string(data)
 		if !strings.Contains(text, "\n# Units: "+c.units+".") {
 			t.Errorf("%v: no units line for %s", c.args, c.units)
+		}
+		for _, want := range []string{"\n# Reactions", "\n# Checks", "\n#   - [design_fail] FAIL — Deflection, cantilever"} {
+			if !strings.Contains(text, want) {
+				t.Errorf("%v: the table's comment rows lack %q", c.args, want)
+			}
 		}
 		var rows int
 		for _, line := range strings.Split(strings.TrimSpace(text), "\n") {
@@ -269,15 +314,24 @@ func TestExportCSVPointsAndUnits(t *testing.T) {
 
 func TestConvergeJSON(t *testing.T) {
 	code, out, stderr := runStave(t, "converge", "--json", "--max", "8", "../../testdata/simply_supported_uniform.json")
-	if code != 0 {
-		t.Fatalf("exit %d: %s", code, stderr)
+	// The model's 20.8 mm deflection is beyond span/360 = 11.1 mm (common practice).
+	if code != 3 || !strings.Contains(stderr, "[design_fail]") {
+		t.Fatalf("exit %d, want 3 for the failed deflection check: %s", code, stderr)
 	}
 	var got struct {
 		Rows []struct {
 			Elements int     `json:"elements"`
-			L2       float64 `json:"l2_error_relative"`
+			L2       float64 `json:"displacement_error"`
 		} `json:"rows"`
-		Rates struct{ L2, Energy *float64 } `json:"fitted_rates"`
+		Rates struct {
+			Displacement, Energy struct {
+				Fitted   *float64 `json:"fitted"`
+				LastStep *float64 `json:"last_step"`
+			}
+		} `json:"rates"`
+		Exact    bool                    `json:"exact_for_model"`
+		Failed   bool                    `json:"check_failed"`
+		Warnings []struct{ Code string } `json:"warnings"`
 	}
 	if err := json.Unmarshal([]byte(out), &got); err != nil {
 		t.Fatal(err)
@@ -287,11 +341,19 @@ func TestConvergeJSON(t *testing.T) {
 	}
 	// Hermite beams: displacement L2 error O(h⁴), energy O(h²)
 	// (Strang & Fix, An Analysis of the Finite Element Method, ch. 1; from memory).
-	if got.Rates.L2 == nil || math.Abs(*got.Rates.L2-4) > 0.2 {
-		t.Errorf("fitted L2 rate %v, want about 4", got.Rates.L2)
+	if r := got.Rates.Displacement.Fitted; r == nil || math.Abs(*r-4) > 0.2 {
+		t.Errorf("fitted displacement rate %v, want about 4", r)
 	}
-	if got.Rates.Energy == nil || math.Abs(*got.Rates.Energy-2) > 0.2 {
-		t.Errorf("fitted energy rate %v, want about 2", got.Rates.Energy)
+	if r := got.Rates.Energy.Fitted; r == nil || math.Abs(*r-2) > 0.2 {
+		t.Errorf("fitted energy rate %v, want about 2", r)
+	}
+	if got.Exact || !got.Failed || len(got.Warnings) == 0 || got.Warnings[0].Code != "design_fail" {
+		t.Errorf("exact %v, check_failed %v, warnings %+v", got.Exact, got.Failed, got.Warnings)
+	}
+	// Point loads only: exact for the model, no rates of round-off.
+	code, text, _ := runStave(t, "converge", "../../testdata/cantilever_tip_load.json")
+	if code != 3 || !strings.Contains(text, "exact for this model") || strings.Contains(text, "Rates:") {
+		t.Errorf("cantilever with a point load: exit %d\n%s", code, text)
 	}
 }
 
@@ -315,5 +377,330 @@ func TestBenchQuickPipelineOnly(t *testing.T) {
 	}
 	if !strings.Contains(out, "stage by stage") || !strings.Contains(out, "Point loads on the beam model") || strings.Contains(out, "Pbtrf") {
 		t.Errorf("bench --pipeline printed\n%s", out)
+	}
+}
+
+// variant writes testdata/simply_supported_uniform.json (L = 4 m, pinned and
+// roller, w = 10 kN/m down, E = 200 GPa) changed by edit to a file in dir.
+func variant(t *testing.T, dir, name string, edit func(m map[string]any)) string {
+	t.Helper()
+	data, err := os.ReadFile("../../testdata/simply_supported_uniform.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	var m map[string]any
+	if err := json.Unmarshal(data, &m); err != nil {
+		t.Fatal(err)
+	}
+	edit(m)
+	out, err := json.Marshal(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(dir, name+".json")
+	if err := os.WriteFile(path, out, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	return path
+}
+
+// stiff gives the beam I = 8e-5 m⁴, so its deflection 5wL⁴/(384EI) =
+// 2.1 mm passes span/360 = 11.1 mm, and an allowable stress of 250 MPa
+// against its wL²/8·c/I = 25 MPa.
+func stiff(m map[string]any) {
+	seg := m["member"].(map[string]any)["segments"].([]any)[0].(map[string]any)
+	seg["section"].(map[string]any)["second_moment"] = 8e-5
+	seg["material"].(map[string]any)["allowable_stress"] = 250e6
+}
+
+// solveJSON is the results document of one model.
+type solveJSON struct {
+	Solved    bool `json:"solved"`
+	Failed    bool `json:"check_failed"`
+	Reactions []struct {
+		Transverse *struct{ Value, FE float64 }
+	} `json:"reactions"`
+	Extremes []struct {
+		Quantity string
+		Max      struct{ Value, X, FE float64 }
+		Accuracy *float64
+	} `json:"extremes"`
+	ExactError *struct {
+		Stress       float64 `json:"stress_error"`
+		Displacement float64 `json:"displacement_error"`
+		Energy       float64 `json:"energy_error"`
+	} `json:"exact_error"`
+	Warnings []struct {
+		Code, Severity, Message string
+		X                       *float64
+	} `json:"warnings"`
+}
+
+func (d solveJSON) codes() []string {
+	var out []string
+	for _, w := range d.Warnings {
+		out = append(out, w.Code)
+	}
+	return out
+}
+
+// Each kind of outcome through run(), with the warnings the JSON names
+// and the exit status: 0 solved and no check failed, 3 solved but a check
+// failed, 1 refused.
+func TestExitStatusAndWarnings(t *testing.T) {
+	dir := t.TempDir()
+	const w, L = 10e3, 4.0
+	// A roller that settles by an absurd amount on a determinate beam moves
+	// it as a rigid body: the reactions stay those of statics, wL/2 each
+	// (Gere & Goodno, Mechanics of Materials, Appendix D, from memory), and
+	// nothing fails. They read 0 and 40 kN before the exact key-point solver.
+	settled := variant(t, dir, "settled", func(m map[string]any) {
+		stiff(m)
+		m["supports"].([]any)[1].(map[string]any)["settlement"] = map[string]any{"transverse": -1e6}
+		m["mesh"] = map[string]any{"elements": 0}
+	})
+	// One element, set coarse on purpose: M = wL²/8 = 20 kN·m at midspan is
+	// the headline value, the element's wL²/12 = 13.33 kN·m beside it.
+	coarse := variant(t, dir, "coarse", func(m map[string]any) {
+		stiff(m)
+		m["mesh"] = map[string]any{"elements": 1}
+	})
+	// Half the member with I = 8e-20 m⁴: equations ill-conditioned beyond
+	// use, no exact solution, and finite element reactions that do not balance.
+	contrast := variant(t, dir, "contrast", func(m map[string]any) {
+		segs := m["member"].(map[string]any)["segments"].([]any)
+		first := segs[0].(map[string]any)
+		second := map[string]any{}
+		for k, v := range first {
+			second[k] = v
+		}
+		first["end"], second["start"] = 2.0, 2.0
+		second["section"] = map[string]any{"area": 0.004, "second_moment": 8e-20, "fibre_distance": 0.1}
+		m["member"].(map[string]any)["segments"] = append(segs, second)
+		m["mesh"] = map[string]any{"elements": 0}
+	})
+	overstressed := variant(t, dir, "overstressed", func(m map[string]any) {
+		stiff(m)
+		seg := m["member"].(map[string]any)["segments"].([]any)[0].(map[string]any)
+		seg["material"].(map[string]any)["allowable_stress"] = 20e6
+		m["mesh"] = map[string]any{"elements": 0}
+	})
+	free := variant(t, dir, "free", func(m map[string]any) {
+		m["supports"].([]any)[0].(map[string]any)["kind"] = "roller"
+	})
+
+	cases := []struct {
+		name  string
+		file  string
+		code  int
+		has   []string // warning codes the JSON must list
+		hasnt []string
+	}{
+		{"absurd settlement", settled, 0, nil, []string{"equilibrium", "condition"}},
+		{"coarse mesh on purpose", coarse, 0, []string{"coarse_mesh", "fe_error"}, []string{"design_fail"}},
+		{"ill-conditioned", contrast, 3, []string{"equilibrium", "condition", "no_exact"}, nil},
+		{"overstressed", overstressed, 3, []string{"design_fail"}, []string{"coarse_mesh"}},
+		{"free motion", free, 1, []string{"mechanism"}, nil},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			code, out, stderr := runStave(t, "solve", "--json", c.file)
+			if code != c.code {
+				t.Errorf("exit %d, want %d (stderr %s)", code, c.code, stderr)
+			}
+			var d solveJSON
+			if err := json.Unmarshal([]byte(out), &d); err != nil {
+				t.Fatalf("not JSON: %v\n%s", err, out)
+			}
+			got := strings.Join(d.codes(), " ")
+			for _, want := range c.has {
+				if !slices.Contains(d.codes(), want) {
+					t.Errorf("warnings %q lack %q", got, want)
+				}
+			}
+			for _, not := range c.hasnt {
+				if slices.Contains(d.codes(), not) {
+					t.Errorf("warnings %q name %q", got, not)
+				}
+			}
+			if d.Solved != (c.code != 1) || d.Failed != (c.code == 3) {
+				t.Errorf("solved %v, check_failed %v for exit %d", d.Solved, d.Failed, c.code)
+			}
+			if textCode, _, _ := runStave(t, "solve", c.file); textCode != c.code {
+				t.Errorf("the text output exits %d, the JSON %d", textCode, c.code)
+			}
+		})
+	}
+
+	_, out, _ := runStave(t, "solve", "--json", settled)
+	var d solveJSON
+	if err := json.Unmarshal([]byte(out), &d); err != nil {
+		t.Fatal(err)
+	}
+	for i, r := range d.Reactions {
+		if r.Transverse == nil || math.Abs(r.Transverse.Value-w*L/2) > 1e-6*w*L || math.Abs(r.Transverse.FE-w*L/2) > 1e-6*w*L {
+			t.Errorf("settled beam, support %d: reaction %+v, want wL/2 = %g N", i+1, r.Transverse, w*L/2)
+		}
+	}
+
+	_, out, _ = runStave(t, "solve", "--json", coarse)
+	if err := json.Unmarshal([]byte(out), &d); err != nil {
+		t.Fatal(err)
+	}
+	for _, e := range d.Extremes {
+		if e.Quantity == "bending_moment" {
+			near(t, "coarse mesh: exact largest moment", e.Max.Value, w*L*L/8, 1e-12)
+			near(t, "coarse mesh: its place", e.Max.X, L/2, 1e-12)
+			near(t, "coarse mesh: FE largest moment beside it", e.Max.FE, w*L*L/12, 1e-12)
+		}
+	}
+	_, text, _ := runStave(t, "solve", coarse)
+	for _, want := range []string{"FE and exact differ by 100 % (shear force)", "20.00 kN·m", "13.33 kN·m", "The headline values", "set in the model"} {
+		if !strings.Contains(text, want) {
+			t.Errorf("coarse mesh: the text lacks %q", want)
+		}
+	}
+}
+
+// A bar held at both ends and heated does not move: its displacement
+// error is round-off and reads 0, not 100 % (it read 128 % when divided by
+// the exact displacement alone). The two segments carry the same thermal
+// force E·A·α·ΔT, with A and α in inverse proportion.
+func TestSolveRestrainedHeatedBar(t *testing.T) {
+	path := variant(t, t.TempDir(), "heated", func(m map[string]any) {
+		segs := m["member"].(map[string]any)["segments"].([]any)
+		first := segs[0].(map[string]any)
+		first["material"].(map[string]any)["thermal_expansion"] = 1.2e-5
+		second := map[string]any{"start": 1.7, "end": 4.0,
+			"section":  map[string]any{"area": 0.0033, "second_moment": 8e-6, "fibre_distance": 0.1},
+			"material": map[string]any{"name": "steel", "elastic_modulus": 2e11, "thermal_expansion": 1.2e-5 * 0.004 / 0.0033}}
+		first["end"] = 1.7
+		m["member"].(map[string]any)["segments"] = append(segs, second)
+		m["supports"] = []any{map[string]any{"x": 0, "kind": "fixed"}, map[string]any{"x": 4, "kind": "fixed"}}
+		m["loads"] = []any{}
+		m["temperature_change"] = 30
+		m["mesh"] = map[string]any{"elements": 10}
+	})
+	code, out, stderr := runStave(t, "solve", "--json", path)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	var d solveJSON
+	if err := json.Unmarshal([]byte(out), &d); err != nil {
+		t.Fatal(err)
+	}
+	if d.ExactError == nil || d.ExactError.Displacement > 1e-12 || d.ExactError.Energy > 1e-12 || d.ExactError.Stress > 1e-12 {
+		t.Errorf("exact_error %+v, want round-off", d.ExactError)
+	}
+}
+
+// Every key of the results document is snake_case, warnings and checks are
+// lists even when empty, and every object that holds a dimensioned number
+// states its unit beside it.
+func TestSolveJSONKeys(t *testing.T) {
+	for _, file := range []string{"demo.json", "cantilever_tip_load.json", "fixed_fixed_thermal.json", "two_span_uniform.json"} {
+		_, out, _ := runStave(t, "solve", "--json", "../../testdata/"+file)
+		var doc map[string]any
+		if err := json.Unmarshal([]byte(out), &doc); err != nil {
+			t.Fatalf("%s: %v", file, err)
+		}
+		for _, key := range []string{"warnings", "checks", "reactions", "extremes", "support_actions"} {
+			if _, ok := doc[key].([]any); !ok {
+				t.Errorf("%s: %q is %T, not a list", file, key, doc[key])
+			}
+		}
+		walkJSON(t, file, "", doc)
+	}
+}
+
+// dimensionless are the keys whose numbers have no unit: counts, indices,
+// ratios and fractions (docs/json.md).
+var dimensionless = map[string]bool{
+	"version": true, "support": true, "elements": true, "nodes": true, "bar_order": true,
+	"condition_estimate": true, "accuracy": true, "accuracy_target": true, "accuracy_reached": true,
+	"relative": true, "stress_error": true, "displacement_error": true, "energy_error": true,
+}
+
+func walkJSON(t *testing.T, file, path string, v any) {
+	t.Helper()
+	switch v := v.(type) {
+	case map[string]any:
+		hasUnit := false
+		for k := range v {
+			hasUnit = hasUnit || strings.HasSuffix(k, "unit")
+		}
+		for k, child := range v {
+			if k != strings.ToLower(k) || strings.ContainsAny(k, " -") {
+				t.Errorf("%s: key %q at %s is not snake_case", file, k, path)
+			}
+			if _, number := child.(float64); number && !dimensionless[k] && !hasUnit {
+				t.Errorf("%s: %s.%s is a number with no unit beside it", file, path, k)
+			}
+			walkJSON(t, file, path+"."+k, child)
+		}
+	case []any:
+		for i, child := range v {
+			walkJSON(t, file, fmt.Sprintf("%s[%d]", path, i), child)
+		}
+	}
+}
+
+// export of a model that cannot be solved writes the drawing of the
+// problem and exits 1; a table cannot be written at all; a model whose
+// check fails is written and exits 3.
+func TestExportExitStatus(t *testing.T) {
+	dir := t.TempDir()
+	free := variant(t, dir, "free", func(m map[string]any) {
+		m["supports"].([]any)[0].(map[string]any)["kind"] = "roller"
+	})
+	png := filepath.Join(dir, "free.png")
+	if code, _, stderr := runStave(t, "export", free, "--out", png); code != 1 || !strings.Contains(stderr, "shows the problem") {
+		t.Errorf("unsolvable drawing: exit %d, stderr %s", code, stderr)
+	}
+	if st, err := os.Stat(png); err != nil || st.Size() == 0 {
+		t.Errorf("the drawing of an unsolvable model was not written: %v", err)
+	}
+	csv := filepath.Join(dir, "free.csv")
+	if code, _, _ := runStave(t, "export", free, "--out", csv); code != 1 {
+		t.Errorf("unsolvable table: exit %d, want 1", code)
+	}
+	if _, err := os.Stat(csv); err == nil {
+		t.Error("a table was written for a model with no results")
+	}
+	sheet := filepath.Join(dir, "cantilever.png")
+	if code, _, _ := runStave(t, "export", "../../testdata/cantilever_tip_load.json", "--sheet", "--out", sheet); code != 3 {
+		t.Errorf("sheet of a model failing its deflection check: exit %d, want 3", code)
+	}
+	if _, err := os.Stat(sheet); err != nil {
+		t.Errorf("the sheet was not written: %v", err)
+	}
+	if code, _, _ := runStave(t, "export", "../../testdata/demo.json", "--out", filepath.Join(dir, "demo.svg")); code != 0 {
+		t.Errorf("demo drawing: exit %d, want 0", code)
+	}
+}
+
+// Each command's --help lists its flags on standard output and exits 0.
+func TestCommandHelp(t *testing.T) {
+	for _, c := range []struct {
+		command string
+		flags   []string
+	}{
+		{"solve", []string{"-json", "-units"}},
+		{"export", []string{"-out", "-sheet", "-points", "-units"}},
+		{"converge", []string{"-json", "-max", "-target"}},
+	} {
+		code, out, stderr := runStave(t, c.command, "--help")
+		if code != 0 || stderr != "" {
+			t.Errorf("%s --help: exit %d, stderr %q", c.command, code, stderr)
+		}
+		for _, f := range c.flags {
+			if !strings.Contains(out, f) {
+				t.Errorf("%s --help does not list %s:\n%s", c.command, f, out)
+			}
+		}
+	}
+	_, out, _ := runStave(t, "help")
+	if !strings.Contains(out, "--target") || !strings.Contains(out, "exit status") {
+		t.Errorf("the usage text lacks --target or the exit status:\n%s", out)
 	}
 }

@@ -2,6 +2,7 @@ package main
 
 import (
 	"context"
+	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -12,42 +13,77 @@ import (
 	"stave/storage"
 )
 
-// solveCommand prints the summary of one model: reactions, extremes,
-// equilibrium, error against the exact solution and mesh. The model is
-// analysed as the window and the exports analyse it (package fem/analysis).
+// solveCommand prints the results of one model: mesh and accuracy,
+// reactions, extremes, the actions at the supports inside the member,
+// equilibrium, the error of the finite element answer, every check and
+// every warning. The model is analysed as the window and the exports
+// analyse it (package fem/analysis). With --json a refused model still
+// gives a document, whose warnings say why.
 func solveCommand(args []string, stdout io.Writer) error {
 	fs := newFlagSet("solve")
-	asJSON := fs.Bool("json", false, "print the summary as JSON (SI units)")
+	asJSON := fs.Bool("json", false, "print the results as JSON (SI units; docs/json.md)")
 	system := fs.String("units", "", "unit system for the printed text: SI or US (default: the file's display units)")
-	path, err := parseOneFile(fs, args)
+	show := fs.String("show", "", "a model with load cases: print one case or combination by NAME, or the envelope")
+	path, err := parseOneFile(fs, args, stdout)
 	if err != nil {
 		return err
+	}
+	var sys units.System
+	if *system != "" {
+		var ok bool
+		if sys, ok = units.ByName(*system); !ok {
+			return usageError{fmt.Sprintf("unknown unit system %q: use SI or US", *system)}
+		}
 	}
 	p, err := storage.Load(path)
 	if err != nil {
+		if *asJSON {
+			refused := analysis.Analysis{Err: err}
+			if werr := report.WriteSolveJSON(stdout, path, report.Source{Analysis: &refused, Findings: refused.Findings()}); werr != nil {
+				return werr
+			}
+		}
 		return modelError{err}
 	}
-	a, err := analysis.Run(context.Background(), report.Request(p, nil))
+	if sys.Name == "" {
+		sys = report.UnitSystem(p.View.Units)
+	}
+	r := report.Request(p, nil)
+	r.Checks.Units = sys
+	if r.Show, err = showFlag(&p.Model, *show); err != nil {
+		return err
+	}
+	a, err := analysis.Run(context.Background(), r)
 	if err != nil {
 		return err
+	}
+	src := report.NewSource(p, &a)
+	src.Units = sys
+	switch {
+	case *asJSON:
+		if err := report.WriteSolveJSON(stdout, path, src); err != nil {
+			return modelError{fmt.Errorf("%s: %w", path, err)}
+		}
+	case a.Err == nil:
+		cases, err := report.CasesResults(&a)
+		if err != nil {
+			return modelError{fmt.Errorf("%s: %w", path, err)}
+		}
+		if cases != nil && r.Show.Kind == analysis.ShowEnvelope {
+			report.WriteCasesText(stdout, path, cases, sys)
+			fmt.Fprintln(stdout)
+			report.WriteWarningsText(stdout, src.Findings)
+			break
+		}
+		if cases != nil {
+			fmt.Fprintf(stdout, "Showing %s\n", cases.Shown)
+		}
+		report.WriteSolveText(stdout, path, src)
 	}
 	if a.Err != nil {
 		return modelError{fmt.Errorf("%s: %w", path, a.Err)}
 	}
-	sum := a.Summary()
-	if *asJSON {
-		return report.WriteSummaryJSON(stdout, path, sum)
-	}
-	name := *system
-	if name == "" {
-		name = string(p.View.Units)
-	}
-	sys, ok := units.ByName(name)
-	if !ok {
-		return usageError{fmt.Sprintf("unknown unit system %q: use SI or US", name)}
-	}
-	report.WriteSummaryText(stdout, path, sum, sys)
-	return nil
+	return failures(path, src.Findings)
 }
 
 // newFlagSet makes a flag set that reports misuse as an error, not an exit.
@@ -57,11 +93,18 @@ func newFlagSet(name string) *flag.FlagSet {
 	return fs
 }
 
-// parseOneFile parses flags that may come before or after a single file name.
-func parseOneFile(fs *flag.FlagSet, args []string) (string, error) {
+// parseOneFile parses flags that may come before or after a single file
+// name. With --help it prints the command's flags to stdout and returns
+// helpShown.
+func parseOneFile(fs *flag.FlagSet, args []string, stdout io.Writer) (string, error) {
 	var files []string
 	for {
-		if err := fs.Parse(args); err != nil {
+		if err := fs.Parse(args); errors.Is(err, flag.ErrHelp) {
+			fmt.Fprintf(stdout, "usage: stave %s [flags] FILE\n\nflags:\n", fs.Name())
+			fs.SetOutput(stdout)
+			fs.PrintDefaults()
+			return "", helpShown
+		} else if err != nil {
 			return "", usageError{fmt.Sprintf("%s: %v", fs.Name(), err)}
 		}
 		if fs.NArg() == 0 {

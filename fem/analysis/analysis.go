@@ -19,6 +19,7 @@ import (
 
 	"stave/fem"
 	"stave/fem/check"
+	"stave/fem/units"
 )
 
 // Request is one model to analyse.
@@ -30,6 +31,8 @@ type Request struct {
 	Nodes []float64
 	// Checks are the limits of the checks, messages in their display units.
 	Checks check.Options
+	// Show is what to show of a model with load cases (cases.go).
+	Show Show
 }
 
 // Analysis is what the stages found for one model.
@@ -45,8 +48,14 @@ type Analysis struct {
 	ExactErr error
 	Checks   []check.Result // nil when there is no solution
 	Handbook *check.Case    // the handbook case the model matches, if any
+	// Cases are the combinations and the envelope of a model with load
+	// cases (cases.go); nil for a model without.
+	Cases *Cases
 	// Complete says Finish has run to its end.
 	Complete bool
+	// Units are the display units of the findings' messages (the checks'
+	// Options.Units; SI when they name none).
+	Units units.System
 	// summary is what Finish's walk gathered for Summary; shared by the
 	// copies of a, never changed.
 	summary *fem.Summary
@@ -59,9 +68,16 @@ func Solve(ctx context.Context, r Request) (Analysis, error) {
 	if err := ctx.Err(); err != nil {
 		return Analysis{}, err
 	}
-	a := Analysis{Model: r.Model, Nodes: r.Nodes}
+	a := Analysis{Model: r.Model, Nodes: r.Nodes, Units: r.Checks.Units}
+	if a.Units.Name == "" {
+		a.Units = units.SI
+	}
 	if len(r.Model.Segments) == 0 {
 		a.Err = errors.New("no member yet: drag along the drawing with the Member tool, or type a length")
+		return a, nil
+	}
+	if len(r.Model.Cases) > 0 {
+		solveCases(&a, r)
 		return a, nil
 	}
 	if r.Nodes == nil {
@@ -89,7 +105,12 @@ func Finish(ctx context.Context, r Request, a Analysis) (Analysis, error) {
 	if err := ctx.Err(); err != nil {
 		return a, err
 	}
-	a.Exact, a.ExactErr = fem.SolveExact(&a.Model)
+	if a.Cases != nil {
+		a.Cases = a.Cases.clone()
+		a.Exact, a.ExactErr = a.Cases.exact()
+	} else {
+		a.Exact, a.ExactErr = fem.SolveExact(&a.Model)
+	}
 	if err := ctx.Err(); err != nil {
 		return a, err
 	}
@@ -101,6 +122,9 @@ func Finish(ctx context.Context, r Request, a Analysis) (Analysis, error) {
 		a.Checks = p.Results(z.Comparison(), r.Checks)
 		sum := z.Summary()
 		a.summary = &sum
+		if a.Cases != nil {
+			a.Cases.finish(&a, r.Checks)
+		}
 	}
 	if c, ok := check.Handbook(&a.Model); ok {
 		a.Handbook = &c
@@ -132,9 +156,8 @@ func (a *Analysis) Problem() string {
 }
 
 // Summary is fem.Summarize of the solution against the exact one, as
-// Finish's walk gathered it (worked out here before Finish), with a warning
-// when the exact solution is missing; a must have a Solution. It is a copy:
-// the caller may change it.
+// Finish's walk gathered it (worked out here before Finish); a must have a
+// Solution. It is a copy: the caller may change it.
 func (a *Analysis) Summary() fem.Summary {
 	var sum fem.Summary
 	if a.summary == nil {
@@ -143,14 +166,11 @@ func (a *Analysis) Summary() fem.Summary {
 		sum = *a.summary
 		sum.Reactions = slices.Clone(sum.Reactions)
 		sum.Extremes = slices.Clone(sum.Extremes)
-		sum.Warnings = slices.Clone(sum.Warnings)
+		sum.Supports = slices.Clone(sum.Supports)
 		if e := sum.ExactError; e != nil {
 			norms := *e
 			sum.ExactError = &norms
 		}
-	}
-	if a.Exact == nil {
-		sum.Warnings = append(sum.Warnings, "the exact solution is not available for this model, so the error against it is not reported")
 	}
 	return sum
 }

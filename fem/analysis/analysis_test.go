@@ -4,7 +4,9 @@ import (
 	"context"
 	"errors"
 	"math"
+	"os"
 	"reflect"
+	"slices"
 	"strings"
 	"testing"
 
@@ -124,10 +126,10 @@ func TestCheckFindingsWords(t *testing.T) {
 
 func TestFlagged(t *testing.T) {
 	fs := []Finding{
-		finding(Caution, "material", "odd"),
-		finding(OK, "equilibrium", "fine"),
-		finding(Fail, "stress", "too high"),
-		finding(Note, "exact", "none"),
+		finding(CodeMaterial, "material", "odd"),
+		finding(CodeVerified, "equilibrium", "fine"),
+		finding(CodeDesignFail, "stress", "too high"),
+		finding(CodeDesignNotChecked, "exact", "none"),
 	}
 	got := Flagged(fs)
 	want := []string{"FAIL — stress: too high", "caution — material: odd"}
@@ -176,5 +178,102 @@ func TestFinishOneWalkForSummaryAndChecks(t *testing.T) {
 	got.Extremes[0].Max, got.ExactError.MaxStress = 1e300, 1e300
 	if again := a.Summary(); again.Extremes[0].Max == 1e300 || again.ExactError.MaxStress == 1e300 {
 		t.Error("changing a summary changed the analysis's")
+	}
+}
+
+// Every code is in the table once, and docs/json.md, which programs read,
+// lists every one.
+func TestCodes(t *testing.T) {
+	doc, err := os.ReadFile("../../docs/json.md")
+	if err != nil {
+		t.Fatal(err)
+	}
+	seen := map[Code]bool{}
+	for _, c := range Codes {
+		if seen[c.Code] || c.Code != Code(strings.ToLower(string(c.Code))) || c.Meaning == "" {
+			t.Errorf("code %q: twice, not lower case, or without a meaning", c.Code)
+		}
+		seen[c.Code] = true
+		if !strings.Contains(string(doc), "`"+string(c.Code)+"`") {
+			t.Errorf("docs/json.md does not list the code %q", c.Code)
+		}
+	}
+}
+
+// beam is the shipped simple beam (L = 4 m, w = 10 kN/m down) on mesh.
+func beam(t *testing.T, mesh fem.MeshSettings) Analysis {
+	t.Helper()
+	m := load(t, "simply_supported_uniform.json")
+	m.Mesh = mesh
+	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
+	if err != nil || a.Solution == nil || a.Exact == nil {
+		t.Fatalf("analysis: %v, %v, %v", err, a.Err, a.ExactErr)
+	}
+	return a
+}
+
+func codes(fs []Finding) []Code {
+	var out []Code
+	for _, f := range fs {
+		out = append(out, f.Code)
+	}
+	return out
+}
+
+// A mesh set coarse on purpose keeps its finite element values, and the
+// findings say plainly how far they are from the exact ones and which is
+// which; the default mesh needs no such word.
+func TestCoarseMeshFinding(t *testing.T) {
+	coarse := beam(t, fem.MeshSettings{Elements: 1})
+	fs := coarse.Findings()
+	var f Finding
+	for _, g := range fs {
+		if g.Code == CodeCoarseMesh {
+			f = g
+		}
+	}
+	// One element: the finite element shear is zero where the exact one
+	// is wL/2 = 20 kN at the supports (Gere & Goodno, Appendix D, from memory).
+	if f.Code != CodeCoarseMesh || f.Severity != Caution || f.Doubtful || !f.Located || f.At != 0 {
+		t.Fatalf("coarse mesh finding %+v among %v", f, codes(fs))
+	}
+	for _, want := range []string{"differ by 100 % of the largest shear force", "20.00 kN at x = 0 m exactly", "in the finite element (FE) solution",
+		"Also beyond 0.5 %: deflection 20 %, bending moment 66.7 %", "headline values", "set in the model"} {
+		if !strings.Contains(f.Message, want) {
+			t.Errorf("coarse mesh message lacks %q: %s", want, f.Message)
+		}
+	}
+	if Failed(fs) && !slices.Contains(codes(fs), CodeDesignFail) {
+		t.Errorf("a coarse mesh alone fails: %v", codes(fs))
+	}
+	if auto := beam(t, fem.MeshSettings{}); slices.Contains(codes(auto.Findings()), CodeCoarseMesh) {
+		t.Errorf("the default mesh is called coarse: %v", codes(auto.Findings()))
+	}
+}
+
+// Reactions that do not balance the loads fail the equilibrium check,
+// mark the results unreliable and make a command exit 3; without an exact
+// solution the values are the finite element ones, and the findings say so.
+func TestEquilibriumAndNoExactFindings(t *testing.T) {
+	a := beam(t, fem.MeshSettings{})
+	broken := *a.Solution
+	broken.Equilibrium.Reactions[1] += 1e3
+	broken.Equilibrium.Residual[1] += 1e3
+	a.Solution = &broken
+	a.Checks = check.Run(&a.Model, a.Solution, a.Exact, check.DefaultOptions())
+	fs := a.Findings()
+	if !Failed(fs) || !Unreliable(fs) || !slices.Contains(codes(Warnings(fs)), CodeEquilibrium) {
+		t.Errorf("unbalanced reactions: failed %v, unreliable %v, warnings %v", Failed(fs), Unreliable(fs), codes(Warnings(fs)))
+	}
+
+	b := beam(t, fem.MeshSettings{})
+	b.Exact, b.ExactErr, b.summary = nil, errors.New("its equations are singular"), nil
+	b.Checks = check.Run(&b.Model, b.Solution, nil, check.DefaultOptions())
+	fs = b.Findings()
+	if !slices.Contains(codes(fs), CodeNoExact) || slices.Contains(codes(fs), CodeNotVerified) {
+		t.Errorf("no exact solution: findings %v", codes(fs))
+	}
+	if sum := b.Summary(); sum.Exact || sum.Extremes[0].Max != sum.Extremes[0].FEMax {
+		t.Errorf("without an exact solution the headline values must be the finite element ones: %+v", sum.Extremes[0])
 	}
 }

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 	"strings"
 
@@ -35,42 +36,61 @@ func (s Severity) String() string {
 	return severityWords[s]
 }
 
+var severityNames = [...]string{"ok", "pending", "note", "caution", "fail"}
+
+// Name is the severity in lower case, one word, as programs read it.
+func (s Severity) Name() string {
+	if s < 0 || int(s) >= len(severityNames) {
+		return "unknown"
+	}
+	return severityNames[s]
+}
+
 // Flagged reports whether a sheet lists findings of this severity.
 func (s Severity) Flagged() bool { return s == Fail || s == Caution }
 
 // Finding is one line of what the user should look at.
 type Finding struct {
+	Code     Code // what kind of finding, for programs (Codes)
 	Severity Severity
 	// Status is the word in front: the severity's, or "within limit" for a
 	// design check that passes (a finding about the member, never an approval).
 	Status  string
 	Name    string // what was checked, one line
 	Message string // the full explanation
+	// Check is the code of the check of package check the finding reports
+	// (check.CodeStress...); "" for findings of the analysis itself.
+	Check string
 	// Span is the place on the member to highlight, m; {0, 0} for none.
 	Span [2]float64
-	// At is the point the finding names, m, marked on the drawing when Marked.
-	At     float64
-	Marked bool
+	// At is the point the finding names, m, when Located; marked on the
+	// drawing when Marked.
+	At      float64
+	Located bool
+	Marked  bool
 	// Doubtful makes the drawing mark every result as unreliable.
 	Doubtful bool
 }
 
-func finding(s Severity, name, message string) Finding {
-	return Finding{Severity: s, Status: s.String(), Name: name, Message: message}
+// finding is a finding of code c, with the severity and reliability the
+// table of codes gives it.
+func finding(c Code, name, message string) Finding {
+	i := c.info()
+	return Finding{Code: c, Severity: i.Severity, Status: i.Severity.String(), Name: name, Message: message, Doubtful: i.Unreliable}
 }
 
 // Findings lists what the user should look at: why the analysis failed,
 // materials far from typical values, solver warnings, a missing exact
-// solution, then the results of package check, the worst first.
+// solution, finite element extremes far from the exact ones, then the
+// results of package check, the worst first.
 func (a *Analysis) Findings() []Finding {
 	var out []Finding
 	if a.Err != nil {
 		var mech *fem.MechanismError
-		f := finding(Fail, "no results", a.Err.Error())
+		f := finding(CodeNoResults, "no results", a.Err.Error())
 		if errors.As(a.Err, &mech) {
-			f = finding(Fail, "free motion ("+mech.Motion+")", mech.Message)
+			f = finding(CodeMechanism, "free motion ("+mech.Motion+")", mech.Message)
 		}
-		f.Doubtful = true
 		out = append(out, f)
 	}
 	seen := map[string]bool{}
@@ -78,7 +98,7 @@ func (a *Analysis) Findings() []Finding {
 		for _, msg := range material.FarFromTypical(s.Material) {
 			if !seen[msg] {
 				seen[msg] = true
-				f := finding(Caution, fmt.Sprintf("material of segment %d", i+1), msg)
+				f := finding(CodeMaterial, fmt.Sprintf("material of segment %d", i+1), msg)
 				f.Span = [2]float64{s.Start, s.End}
 				out = append(out, f)
 			}
@@ -88,38 +108,111 @@ func (a *Analysis) Findings() []Finding {
 		return out
 	}
 	if !a.Complete {
-		out = append(out, finding(Pending, "exact solution and checks follow when the drawing rests",
+		out = append(out, finding(CodePending, "exact solution and checks follow when the drawing rests",
 			"The finite element result is shown at once; the exact solution and the checks are worked out after it, once edits pause."))
 	}
 	for _, msg := range a.Solution.Warnings {
-		f := finding(Caution, "solver", msg)
-		f.Doubtful = true
-		out = append(out, f)
+		out = append(out, finding(CodeCondition, "solver", msg))
 	}
 	if a.Exact == nil && a.ExactErr != nil {
-		out = append(out, finding(Note, "no exact solution", a.ExactErr.Error()))
+		out = append(out, finding(CodeNoExact, "no exact solution: values are the finite element ones",
+			fmt.Sprintf("There is no exact solution of this model (%v), so every value reported is the finite element one, labelled FE, and its error is not measured: a peak between nodes may be missed. Refine the mesh and compare to be sure.", a.ExactErr)))
+	}
+	if f, ok := a.coarseMesh(); ok {
+		out = append(out, f)
 	}
 	return append(out, a.checkFindings()...)
 }
 
-// checkSeverity is the severity of each check status.
-var checkSeverity = [...]Severity{check.Pass: OK, check.Info: Note, check.Warn: Caution, check.Fail: Fail}
+// coarseMesh is the finding that the finite element extremes are further
+// from the exact ones than the default mesh's accuracy, naming the worst
+// field and where, and which number is which; false when they are not, or
+// before Finish.
+func (a *Analysis) coarseMesh() (Finding, bool) {
+	if a.summary == nil || !a.summary.Exact {
+		return Finding{}, false
+	}
+	sum := a.summary
+	worst, _ := sum.Worst()
+	if worst.Accuracy <= fem.MeshAccuracy {
+		return Finding{}, false
+	}
+	u := a.Units
+	q := worst.Quantity.Info()
+	exact, at, fe, feAt := worst.Max, worst.XMax, worst.FEMax, worst.FEXMax
+	which := "largest"
+	if math.Abs(worst.FEMin-worst.Min) > math.Abs(worst.FEMax-worst.Max) {
+		exact, at, fe, feAt, which = worst.Min, worst.XMin, worst.FEMin, worst.FEXMin, "smallest"
+	}
+	var others []string
+	for _, e := range sum.Extremes {
+		if e.Quantity != worst.Quantity && e.Accuracy > fem.MeshAccuracy {
+			others = append(others, fmt.Sprintf("%s %.3g %%", e.Quantity, 100*e.Accuracy))
+		}
+	}
+	msg := fmt.Sprintf("FE and exact differ by %.3g %% of the largest %s at x = %s: the %s %s is %s at x = %s exactly, %s at x = %s in the finite element (FE) solution on this mesh. ",
+		100*worst.Accuracy, q.Name, u.Format(units.Position, at), which, q.Name,
+		u.Format(q.Unit, exact), u.Format(units.Position, at), u.Format(q.Unit, fe), u.Format(units.Position, feAt))
+	if len(others) > 0 {
+		msg += "Also beyond 0.5 %: " + strings.Join(others, ", ") + ". "
+	}
+	msg += "The headline values are the exact ones; the FE values beside them and the FE diagrams are this mesh's approximation. "
+	if sum.Mesh.Automatic {
+		msg += "Stave chose this mesh (" + sum.Mesh.Note + ") and it falls short of its 0.5 %."
+	} else {
+		msg += "The mesh is set in the model: leave it to Stave (0 elements) for FE extremes within 0.5 % of the exact ones."
+	}
+	f := finding(CodeCoarseMesh, fmt.Sprintf("FE and exact differ by %.3g %% (%s)", 100*worst.Accuracy, q.Name), msg)
+	f.At, f.Located = at, true
+	return f, true
+}
 
-// checkFindings turns the results of package check into findings, the worst first.
+// checkCode is the code of each check status, by kind.
+var checkCode = map[check.Kind][4]Code{
+	check.Design:       {check.Pass: CodeDesignWithinLimit, check.Info: CodeDesignNotChecked, check.Warn: CodeDesignCaution, check.Fail: CodeDesignFail},
+	check.Verification: {check.Pass: CodeVerified, check.Info: CodeNotVerified, check.Warn: CodeFEError, check.Fail: CodeEquilibrium},
+}
+
+// verificationCodes are the codes of the verification checks that fail
+// or warn, by check.
+var verificationCodes = map[string]Code{
+	check.CodeEquilibrium: CodeEquilibrium,
+	check.CodeExactError:  CodeFEError,
+	check.CodeHandbook:    CodeHandbook,
+}
+
+// codeOf is the code of the finding that reports r.
+func codeOf(r check.Result) Code {
+	if r.Kind == check.Verification && r.Status >= check.Warn {
+		if c, ok := verificationCodes[r.Code]; ok {
+			return c
+		}
+	}
+	return checkCode[r.Kind][r.Status]
+}
+
+// checkFindings turns the results of package check into findings, the
+// worst first. The check of the error against the exact solution says
+// nothing when there is none: the no_exact finding says why.
 func (a *Analysis) checkFindings() []Finding {
-	results := append([]check.Result(nil), a.Checks...)
+	var results []check.Result
+	for _, r := range a.Checks {
+		if r.Code == check.CodeExactError && r.Status == check.Info {
+			continue
+		}
+		results = append(results, r)
+	}
 	sort.SliceStable(results, func(i, j int) bool { return results[i].Status > results[j].Status })
 	out := make([]Finding, len(results))
 	for i, r := range results {
-		f := finding(checkSeverity[r.Status], r.Name, r.Message)
-		// A member too weak for its limits is a finding; an answer that fails
-		// its own verification is not to be trusted.
-		f.Doubtful = r.Status == check.Fail && r.Kind == check.Verification
+		f := finding(codeOf(r), r.Name, r.Message)
+		f.Check = r.Code
 		if r.Status == check.Pass && r.Kind == check.Design {
 			f.Status = "within limit"
 		}
 		// Design checks always name their worst place (x = 0 at a fixed end included).
-		f.At, f.Marked = r.X, r.Kind == check.Design && r.Status >= check.Warn
+		f.At, f.Located, f.Marked = r.X, r.Kind == check.Design || r.Code == check.CodeExactError || r.Code == check.CodeHandbook,
+			r.Kind == check.Design && r.Status >= check.Warn
 		f.Span = r.Span
 		if f.Span == [2]float64{} && r.X != 0 {
 			// A point: mark a short stretch around it so it shows.
@@ -144,6 +237,31 @@ func Unreliable(fs []Finding) bool {
 // Sentence is the finding in one line: "FAIL — name: message".
 func (f Finding) Sentence() string { return f.Status + " — " + f.Name + ": " + f.Message }
 
+// Failed reports whether a command that wrote its results should say a
+// check failed (exit status 3): a finding failed, or marks the results as
+// unreliable.
+func Failed(fs []Finding) bool {
+	for _, f := range fs {
+		if f.Severity == Fail || f.Doubtful {
+			return true
+		}
+	}
+	return false
+}
+
+// Warnings are the findings every output lists: failures, cautions and
+// notes, the worst first (a stable order otherwise).
+func Warnings(fs []Finding) []Finding {
+	var out []Finding
+	for _, f := range fs {
+		if f.Severity >= Note {
+			out = append(out, f)
+		}
+	}
+	sort.SliceStable(out, func(i, j int) bool { return out[i].Severity > out[j].Severity })
+	return out
+}
+
 // Flagged are the failed and cautioned findings, one sentence each, the
 // failures first.
 func Flagged(fs []Finding) []string {
@@ -162,7 +280,8 @@ func Flagged(fs []Finding) []string {
 }
 
 // MeshText is one line on the mesh and the balance of the solution, in
-// units u; the problem when there is no solution.
+// units u, then who chose the mesh and the accuracy it reaches; the
+// problem when there is no solution.
 func (a *Analysis) MeshText(u units.System) string {
 	if a.Solution == nil {
 		return "no results: " + a.Problem()
@@ -170,8 +289,95 @@ func (a *Analysis) MeshText(u units.System) string {
 	s := a.Solution
 	e := s.Equilibrium
 	res := math.Max(math.Abs(e.Residual[0]), math.Abs(e.Residual[1]))
-	return fmt.Sprintf("%d elements, %d nodes · out of balance %s, %s · condition ≈ %.2g",
+	text := fmt.Sprintf("%d elements, %d nodes · out of balance %s, %s · condition ≈ %.2g",
 		len(s.Mesh.Elements), len(s.Mesh.X), u.Format(units.Force, res), u.Format(units.Moment, math.Abs(e.Residual[2])), s.Condition)
+	if a.summary != nil {
+		text += "\n" + MeshChoice(*a.summary)
+	}
+	return text
+}
+
+// MeshChoice says who chose the mesh and the accuracy its finite element
+// extremes reach against the exact ones, in one or two sentences.
+func MeshChoice(sum fem.Summary) string {
+	who := "set in the model"
+	if sum.Mesh.Automatic {
+		who = "chosen by Stave (" + sum.Mesh.Note + ")"
+	}
+	worst, ok := sum.Worst()
+	if !ok {
+		return fmt.Sprintf("The mesh is %s; with no exact solution its accuracy is not measured.", who)
+	}
+	verdict := "within"
+	if worst.Accuracy > fem.MeshAccuracy {
+		verdict = "beyond"
+	}
+	return fmt.Sprintf("The mesh is %s; its finite element extremes are up to %.3g %% of a field's largest magnitude from the exact ones (worst: %s), %s the default mesh's %.3g %%.",
+		who, 100*worst.Accuracy, worst.Quantity, verdict, 100*fem.MeshAccuracy)
+}
+
+// headlineQuantities are the fields HeadlineText lists.
+var headlineQuantities = []fem.Quantity{fem.QDeflection, fem.QAxialForce, fem.QShearForce, fem.QBendingMoment, fem.QCombinedStress}
+
+// HeadlineText lists, in units u, what an engineer reads first: each
+// reaction component a support holds, the largest and smallest deflection,
+// axial and shear force, bending moment and combined stress with their
+// places (fields that are zero left out), and the actions at the supports
+// inside the member, each the exact value with the finite element one
+// beside; the finite element values alone, labelled FE, without an exact
+// solution. "" before Finish.
+func (a *Analysis) HeadlineText(u units.System) string {
+	if a.summary == nil {
+		return ""
+	}
+	sum := a.summary
+	pos := func(x float64) string { return u.Format(units.Position, x) }
+	value := func(k units.Kind, v, fe float64) string {
+		if !sum.Exact {
+			return u.Format(k, fe) + " FE"
+		}
+		return fmt.Sprintf("%s (FE %s)", u.Format(k, v), u.Format(k, fe))
+	}
+	var b strings.Builder
+	if sum.Exact {
+		b.WriteString("Exact values, finite element (FE) beside:")
+	} else {
+		b.WriteString("No exact solution: finite element (FE) values:")
+	}
+	for _, r := range sum.Reactions {
+		var parts []string
+		for d, c := range []struct {
+			name  string
+			kind  units.Kind
+			v, fe float64
+		}{{"axial", units.Force, r.Axial, r.FE.Axial}, {"transverse", units.Force, r.Transverse, r.FE.Transverse}, {"moment", units.Moment, r.Moment, r.FE.Moment}} {
+			if r.Holds[d] {
+				parts = append(parts, c.name+" "+value(c.kind, c.v, c.fe))
+			}
+		}
+		fmt.Fprintf(&b, "\n• reaction %d (%s, %s): %s", r.Support, r.Kind, pos(r.X), strings.Join(parts, ", "))
+	}
+	for _, e := range sum.Extremes {
+		if !slices.Contains(headlineQuantities, e.Quantity) || e.Max == 0 && e.Min == 0 && e.FEMax == 0 && e.FEMin == 0 {
+			continue
+		}
+		k := e.Quantity.Info().Unit
+		if !sum.Exact {
+			fmt.Fprintf(&b, "\n• %s from %s at %s to %s at %s, FE", e.Quantity, u.Format(k, e.FEMin), pos(e.FEXMin), u.Format(k, e.FEMax), pos(e.FEXMax))
+			continue
+		}
+		fmt.Fprintf(&b, "\n• %s from %s at %s to %s at %s (FE %s at %s, %s at %s)", e.Quantity,
+			u.Format(k, e.Min), pos(e.XMin), u.Format(k, e.Max), pos(e.XMax),
+			u.Format(k, e.FEMin), pos(e.FEXMin), u.Format(k, e.FEMax), pos(e.FEXMax))
+	}
+	for _, s := range sum.Supports {
+		fmt.Fprintf(&b, "\n• at support %d (%s): V %s left, %s right; M %s", s.Support, pos(s.X),
+			value(units.Force, s.Shear[0], s.FEShear[0]), value(units.Force, s.Shear[1], s.FEShear[1]), value(units.Moment, s.Moment[0], s.FEMoment[0]))
+		if math.Abs(s.Moment[1]-s.Moment[0]) > 1e-9*math.Max(math.Abs(s.Moment[0]), math.Abs(s.Moment[1])) {
+			fmt.Fprintf(&b, " left, %s right", value(units.Moment, s.Moment[1], s.FEMoment[1]))
+		}
+	}
+	return b.String()
 }
 
 // HandbookText shows the handbook case the model matches, with each

@@ -18,8 +18,9 @@ import (
 // stage, as `stave solve --json` goes: the model read from its file, the
 // mesh, the finite element solve, the exact solution, the extremes, the
 // comparison with the exact solution, the checks and the summary written
-// as JSON. Times are the medians of the repetitions, in seconds; Shares
-// are each stage's part of Total, by the stages' names.
+// as JSON. Times are the medians of the repetitions, in seconds (Total the
+// median of the repetitions' sums); Shares are each stage's part of the
+// sum of the stages' medians, by the stages' names.
 type PipelineRow struct {
 	Model             string             `json:"model"`
 	Elements          int                `json:"elements"`
@@ -113,11 +114,15 @@ func measurePipeline(cfg Config, bm benchModel, size int) (PipelineRow, error) {
 		return PipelineRow{}, fmt.Errorf("bench: %s model with %d elements: %w", bm.name, size, failed)
 	}
 	row := PipelineRow{Model: bm.name, Elements: elements, TotalSeconds: total, Shares: map[string]float64{}}
+	sum := 0.0
 	for i, field := range []*float64{&row.LoadSeconds, &row.MeshSeconds, &row.SolveSeconds, &row.ExactSeconds,
 		&row.ExtremesSeconds, &row.ComparisonSeconds, &row.ChecksSeconds, &row.OutputSeconds} {
 		*field = stages[i]
-		if total > 0 {
-			row.Shares[pipelineStages[i]] = stages[i] / total
+		sum += stages[i]
+	}
+	for i, v := range stages {
+		if sum > 0 {
+			row.Shares[pipelineStages[i]] = v / sum
 		}
 	}
 	post := row.ExactSeconds + row.ExtremesSeconds + row.ComparisonSeconds + row.ChecksSeconds + row.OutputSeconds

@@ -130,10 +130,8 @@ func TestQuickRun(t *testing.T) {
 			}
 			shares += row.Shares[pipelineStages[i]]
 		}
-		// The total is the median of the sums, the stages each their own
-		// median: close, not equal.
-		if shares < 0.5 || shares > 1.5 {
-			t.Errorf("%s model, %d elements: shares add up to %.2f", row.Model, row.Elements, shares)
+		if math.Abs(shares-1) > 1e-9 {
+			t.Errorf("%s model, %d elements: shares add up to %.12f", row.Model, row.Elements, shares)
 		}
 		post := row.ExactSeconds + row.ExtremesSeconds + row.ComparisonSeconds + row.ChecksSeconds + row.OutputSeconds
 		if math.Abs(row.PostOverSolve-post/row.SolveSeconds) > 1e-9*row.PostOverSolve {

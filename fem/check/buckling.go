@@ -139,17 +139,19 @@ func columns(m *fem.Model) []column {
 func bucklingChecks(p *Probe, o Options) []Result {
 	var out []Result
 	roundOff := negligible * axialScale(p.model)
+	h := p.headline()
 	for k, c := range p.columns {
-		compression, where := p.compression[k].value, p.compression[k].x
+		compression, where := h.compression[k].value, h.compression[k].x
 		if compression <= roundOff {
 			continue // in tension, or compressed by round-off alone
 		}
 		span := fmt.Sprintf("%s to %s", o.Units.Format(units.Position, c.a), o.Units.Format(units.Position, c.b))
-		r := Result{Name: "Buckling, " + span, Span: [2]float64{c.a, c.b}, X: where, Value: compression}
+		r := Result{Name: "Buckling, " + span, Code: CodeBuckling, Unit: "N", Span: [2]float64{c.a, c.b}, X: where, Value: compression}
+		p.beside(&r, p.fe.compression[k])
 		force := o.Units.Format(units.Force, compression)
 		if !c.known {
 			r.Status = Info
-			r.Message = fmt.Sprintf("This part carries up to %s of compression, but its buckling length is not a standard case (%s), so Euler buckling is not checked here: work out the effective length by hand.", force, c.note)
+			r.Message = fmt.Sprintf("This part carries up to %s of compression (from %s), but its buckling length is not a standard case (%s), so Euler buckling is not checked here: work out the effective length by hand.", force, p.fromWhat(), c.note)
 			out = append(out, r)
 			continue
 		}
@@ -162,9 +164,10 @@ func bucklingChecks(p *Probe, o Options) []Result {
 		if utilisation > 1 {
 			r.Status = Fail
 		}
-		r.Message = fmt.Sprintf("Utilisation %.2f: the largest compression %s at x = %s against the Euler load π²EI/(KL)² = %s, with K = %.3g (recommended design value; theoretical K = %.3g gives %s) for %s; source: %s. ",
-			utilisation, force, o.Units.Format(units.Position, where), o.Units.Format(units.Force, r.Limit),
-			c.factor.Design, c.factor.Theoretical, o.Units.Format(units.Force, theoretical), c.note, c.factor.Source)
+		r.Message = fmt.Sprintf("Utilisation %.2f: the largest compression %s at x = %s, from %s, against the Euler load π²EI/(KL)² = %s, with K = %.3g (recommended design value; theoretical K = %.3g gives %s) for %s; source: %s. %s",
+			utilisation, force, o.Units.Format(units.Position, where), p.fromWhat(), o.Units.Format(units.Force, r.Limit),
+			c.factor.Design, c.factor.Theoretical, o.Units.Format(units.Force, theoretical), c.note, c.factor.Source,
+			p.feBeside(o, units.Force, compression, p.fe.compression[k]))
 		if stepped {
 			r.Message += "The section changes along this part: the smallest EI is used, which is conservative. "
 		}

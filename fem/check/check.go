@@ -10,12 +10,21 @@
 //   - the finite element error against the exact solution;
 //   - a handbook cross-check when the model is a standard case (Handbook).
 //
+// The design checks (stress, deflection, buckling) judge the exact solution
+// of the model when there is one: it is the model's own response, free of
+// the mesh's discretisation error, so a coarse mesh neither hides a peak
+// between nodes nor fails a member the model does not overload. The finite
+// element value is reported beside it (Result.FE, and in the message), and
+// the error of the finite element answer is a check of its own. Without an
+// exact solution they judge the finite element solution and say so.
+//
 // Results are an aid for checking only, never a code check or an approval:
 // every Result carries Caution. Values are SI (as in package fem); messages
 // are written in the display units of Options.Units.
 package check
 
 import (
+	"fmt"
 	"math"
 	"sort"
 
@@ -66,9 +75,20 @@ const (
 	Verification
 )
 
+// Codes name each check for programs, stable across releases.
+const (
+	CodeStress      = "stress"
+	CodeDeflection  = "deflection"
+	CodeBuckling    = "buckling"
+	CodeEquilibrium = "equilibrium"
+	CodeExactError  = "exact_error"
+	CodeHandbook    = "handbook"
+)
+
 // Result is one check.
 type Result struct {
 	Name    string
+	Code    string // which check: CodeStress, CodeDeflection...
 	Kind    Kind
 	Status  Status
 	Message string  // what it means and what to look at, for someone new to the trade
@@ -76,6 +96,13 @@ type Result struct {
 	Span    [2]float64
 	Value   float64 // the checked value, SI (stress Pa, deflection m, force N...)
 	Limit   float64 // what Value is checked against, SI
+	Unit    string  // the SI unit of Value and Limit; "" for a ratio
+	// Exact says Value is read from the exact solution; FE and FEX are then
+	// the finite element value and where it is (m), for the checks that read
+	// a peak or a handbook quantity (HasFE).
+	Exact   bool
+	FE, FEX float64
+	HasFE   bool
 	Caution string
 }
 
@@ -130,10 +157,11 @@ func (o Options) withDefaults() Options {
 
 // Run makes every check on model m with its finite element solution s and,
 // when e is not nil, its exact solution. Stresses, deflections and axial
-// forces are read from both solutions and the larger magnitude is used, so
-// a coarse mesh cannot hide a peak between nodes. It walks the elements once
-// for its probes and the comparison with the exact solution; a caller that
-// walks them for other consumers too uses NewProbe and Probe.Results.
+// forces are read from both solutions; the design checks judge the exact
+// ones when there are any (see the package comment) and report the finite
+// element ones beside them. It walks the elements once for its probes and
+// the comparison with the exact solution; a caller that walks them for
+// other consumers too uses NewProbe and Probe.Results.
 func Run(m *fem.Model, s *fem.Solution, e *fem.Exact, opts Options) []Result {
 	if m == nil || s == nil {
 		return []Result{withCaution(Result{Name: "Checks", Status: Info,
@@ -162,9 +190,9 @@ func (p *Probe) Results(c *fem.Comparison, opts Options) []Result {
 	out = append(out, stressChecks(p, opts)...)
 	out = append(out, deflectionChecks(p, opts)...)
 	out = append(out, bucklingChecks(p, opts)...)
-	out = append(out, equilibriumChecks(p.model, p.solution, opts)...)
+	out = append(out, equilibriumChecks(p.model, p.solution, p.exact, opts)...)
 	out = append(out, exactCheck(p, opts))
-	out = append(out, handbookCheck(p.model, p.solution, opts)...)
+	out = append(out, handbookCheck(p.model, p.solution, p.exact, opts)...)
 	for i := range out {
 		out[i] = withCaution(out[i])
 	}
@@ -178,6 +206,16 @@ func withCaution(r Result) Result {
 
 // peak is the value a check keeps, and where it occurs.
 type peak struct{ value, x float64 }
+
+// peaks are the values the design checks read from one solution.
+type peaks struct {
+	// stress holds per segment the combined stress of largest magnitude (signed).
+	stress []peak
+	// deflection holds per part the largest |w − chord| (see chordLine).
+	deflection []peak
+	// compression holds per column the largest −N.
+	compression []peak
+}
 
 // Probe holds what the checks read from the solutions, in closed form: the
 // finite element solution element by element in a walk (it is a
@@ -195,13 +233,9 @@ type Probe struct {
 	partCover, columnCover cover
 	covered                []int // scratch for the parts or columns covering an element
 
-	// stress holds per segment the combined stress of largest magnitude
-	// (signed), from whichever solution is larger there.
-	stress []peak
-	// deflection holds per part the largest |w − chord| (see chordLine).
-	deflection []peak
-	// compression holds per column the largest −N.
-	compression []peak
+	// fe holds the peaks of the finite element solution, taken in the
+	// walk; exact those of the exact solution (Results).
+	fe, ex peaks
 
 	// From the comparison with the exact solution (Results): the error
 	// norms and where the largest stress error is.
@@ -233,28 +267,50 @@ func NewProbe(m *fem.Model, s *fem.Solution, e *fem.Exact) *Probe {
 
 // reset empties the peaks.
 func (p *Probe) reset() {
-	p.stress = make([]peak, len(p.model.Segments))
+	p.fe, p.ex = p.newPeaks(), p.newPeaks()
+}
+
+// newPeaks are empty peaks, each at the start of its part of the member.
+func (p *Probe) newPeaks() peaks {
+	k := peaks{stress: make([]peak, len(p.model.Segments)), deflection: make([]peak, len(p.parts)),
+		compression: make([]peak, len(p.columns))}
 	for i, seg := range p.model.Segments {
-		p.stress[i].x = seg.Start
+		k.stress[i].x = seg.Start
 	}
-	p.deflection = make([]peak, len(p.parts))
-	p.compression = make([]peak, len(p.columns))
-	for k, c := range p.columns {
-		p.compression[k].x = c.a
+	for i, c := range p.columns {
+		k.compression[i].x = c.a
+	}
+	return k
+}
+
+// headline are the peaks the design checks judge: the exact solution's
+// when there is one.
+func (p *Probe) headline() *peaks {
+	if p.exact != nil {
+		return &p.ex
+	}
+	return &p.fe
+}
+
+// beside sets r's finite element value beside an exact one.
+func (p *Probe) beside(r *Result, fe peak) {
+	r.Exact = p.exact != nil
+	if r.Exact {
+		r.FE, r.FEX, r.HasFE = fe.value, fe.x, true
 	}
 }
 
 // Visit takes the finite element peaks of one element.
 func (p *Probe) Visit(v *fem.ElementView) {
 	fe := &v.FE
-	p.takeStress(v.Segment, fe)
+	p.fe.takeStress(v.Segment, fe)
 	p.covered = p.partCover.at(v.Index, p.covered[:0])
 	for _, k := range p.covered {
-		p.takeDeflection(k, fe, &p.chords[k][0])
+		p.fe.takeDeflection(k, fe, &p.chords[k][0])
 	}
 	p.covered = p.columnCover.at(v.Index, p.covered[:0])
 	for _, k := range p.covered {
-		p.takeCompression(k, fe)
+		p.fe.takeCompression(k, fe)
 	}
 }
 
@@ -270,47 +326,48 @@ func (p *Probe) Fork() fem.Visitor {
 // Join takes the peaks of later, which saw the elements after p's.
 func (p *Probe) Join(later fem.Visitor) {
 	q := later.(*Probe)
-	for i, pk := range q.stress {
-		if math.Abs(pk.value) > math.Abs(p.stress[i].value) {
-			p.stress[i] = pk
+	a, b := &p.fe, &q.fe
+	for i, pk := range b.stress {
+		if math.Abs(pk.value) > math.Abs(a.stress[i].value) {
+			a.stress[i] = pk
 		}
 	}
-	for k, pk := range q.deflection {
-		if pk.value > p.deflection[k].value {
-			p.deflection[k] = pk
+	for k, pk := range b.deflection {
+		if pk.value > a.deflection[k].value {
+			a.deflection[k] = pk
 		}
 	}
-	for k, pk := range q.compression {
-		if pk.value > p.compression[k].value {
-			p.compression[k] = pk
+	for k, pk := range b.compression {
+		if pk.value > a.compression[k].value {
+			a.compression[k] = pk
 		}
 	}
 }
 
-// foldExact takes the exact solution's peaks, stretch by stretch; each
-// replaces a finite element one only where strictly larger.
+// foldExact takes the exact solution's peaks, stretch by stretch.
 func (p *Probe) foldExact() {
 	if p.exact == nil {
 		return
 	}
+	p.ex = p.newPeaks()
 	for _, iv := range p.exact.Intervals() {
 		mid := iv.X(0.5)
-		p.takeStress(p.model.SegmentAt(mid), &iv)
+		p.ex.takeStress(p.model.SegmentAt(mid), &iv)
 		for k, st := range p.parts {
 			if st.a <= mid && mid <= st.b {
-				p.takeDeflection(k, &iv, &p.chords[k][1])
+				p.ex.takeDeflection(k, &iv, &p.chords[k][1])
 			}
 		}
 		for k, c := range p.columns {
 			if c.a <= mid && mid <= c.b {
-				p.takeCompression(k, &iv)
+				p.ex.takeCompression(k, &iv)
 			}
 		}
 	}
 }
 
 // takeStress takes the combined stress of largest magnitude on v for segment i.
-func (p *Probe) takeStress(i int, v *fem.Interval) {
+func (p *peaks) takeStress(i int, v *fem.Interval) {
 	lo, hi := v.Range(fem.QCombinedStress)
 	best := hi
 	if math.Abs(lo.Value) > math.Abs(hi.Value) {
@@ -322,19 +379,22 @@ func (p *Probe) takeStress(i int, v *fem.Interval) {
 }
 
 // takeDeflection takes the largest |w − chord| on v for part k.
-func (p *Probe) takeDeflection(k int, v *fem.Interval, c *chordLine) {
-	w, _ := v.Polynomial(fem.QDeflection)
+func (p *peaks) takeDeflection(k int, v *fem.Interval, c *chordLine) {
 	a, b := c.at(v.X(0)), c.at(v.X(1))
-	w[0] -= a
-	w[1] -= b - a
-	if w.MaxAbsBound() <= p.deflection[k].value {
-		return // it cannot beat the peak so far
-	}
 	var lo, hi fem.Point
-	if endsHold(&w) {
-		lo, hi = endsOnly(v, w[0], w.At(1))
+	if w, ok := v.Polynomial(fem.QDeflection); ok {
+		w[0] -= a
+		w[1] -= b - a
+		if w.MaxAbsBound() <= p.deflection[k].value {
+			return // it cannot beat the peak so far
+		}
+		if endsHold(&w) {
+			lo, hi = endsOnly(v, w[0], w.At(1))
+		} else {
+			lo, hi = v.RangeOf(&w) // as RangeLess reads a polynomial interval
+		}
 	} else {
-		lo, hi = v.RangeOf(&w)
+		lo, hi = v.RangeLess(fem.QDeflection, a, b)
 	}
 	best := hi
 	if math.Abs(lo.Value) > math.Abs(hi.Value) {
@@ -377,8 +437,8 @@ func endsOnly(v *fem.Interval, a, b float64) (lo, hi fem.Point) {
 // takeCompression takes the largest −N on v for column k: at an end where
 // N is linear on v (the elements of fem), as Range would give it, else from
 // Range.
-func (p *Probe) takeCompression(k int, v *fem.Interval) {
-	if n, _ := v.Polynomial(fem.QAxialForce); n[2] == 0 && n[3] == 0 && n[4] == 0 && n[5] == 0 {
+func (p *peaks) takeCompression(k int, v *fem.Interval) {
+	if n, ok := v.Polynomial(fem.QAxialForce); ok && n[2] == 0 && n[3] == 0 && n[4] == 0 && n[5] == 0 {
 		at, least := v.X(0), v.End(0).AxialForce
 		if b := v.End(1).AxialForce; b < least {
 			at, least = v.X(1), b
@@ -434,9 +494,25 @@ func (c *cover) at(i int, dst []int) []int {
 	return dst
 }
 
+// fromWhat names the solution the design checks read.
 func (p *Probe) fromWhat() string {
 	if p.exact != nil {
-		return "the larger of the finite element and exact solutions"
+		return "the exact solution of the model"
 	}
-	return "the finite element solution (no exact solution given: peaks between nodes may be missed; refine the mesh to be sure)"
+	return "the finite element solution (no exact solution: peaks between nodes may be missed; refine the mesh to be sure)"
+}
+
+// feBeside is the sentence that gives the finite element value beside the
+// exact one of a design check, value and fe in kind k; "" without an
+// exact solution.
+func (p *Probe) feBeside(o Options, k units.Kind, value float64, fe peak) string {
+	if p.exact == nil {
+		return ""
+	}
+	diff := ""
+	if value != 0 {
+		diff = fmt.Sprintf(", %+.3g %%", 100*(fe.value-value)/value)
+	}
+	return fmt.Sprintf("The finite element solution on this mesh gives %s at x = %s (FE − exact %s%s). ",
+		o.Units.Format(k, fe.value), o.Units.Format(units.Position, fe.x), o.Units.Format(k, fe.value-value), diff)
 }

@@ -246,3 +246,47 @@ func TestNothingToCheck(t *testing.T) {
 		t.Errorf("no solution: %+v", r)
 	}
 }
+
+// On a mesh set coarse on purpose the design checks judge the exact
+// solution and give the finite element value beside it; without an exact
+// solution they judge the finite element one. Simply supported, L = 4 m,
+// q = −10 kN/m, one element: exact M = qL²/8 = 20 kN·m at midspan, so σ =
+// M·c/I = 30 MPa, and δ = 5qL⁴/(384EI) = 2.5 mm (Roark's Table 8.1 case 2e,
+// from memory). The finite element nodal rotations are exact (nodal
+// exactness in one dimension, Hughes, The Finite Element Method, ch. 1,
+// from memory), so its Hermite cubic between them deflects qL⁴/(96EI) =
+// 2.0 mm at midspan, and its moment is the end moment qL²/12 of the
+// consistent load: σ_h = 20 MPa, at the start of the element.
+func TestDesignChecksReadTheExactSolution(t *testing.T) {
+	const L, q = 4.0, -10e3
+	m := beam(L, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L, Kind: fem.Roller}}, 25e6)
+	m.DistributedLoad = []fem.DistributedLoad{uniform(q, 0, L)}
+	m.Mesh.Elements = 1
+	s, e := solveBoth(t, &m)
+	I, c := m.Segments[0].Section.SecondMoment, m.Segments[0].Section.FibreDistance
+	ei := m.Segments[0].Material.Elastic * I
+	exactStress, feStress := -q*L*L/8*c/I, -q*L*L/12*c/I
+	exactDeflection, feDeflection := -5*q*L*L*L*L/(384*ei), -q*L*L*L*L/(96*ei)
+
+	results := Run(&m, s, e, Options{})
+	stress := find(t, results, "Stress, segment 1")
+	if !stress.Exact || !near(stress.Value, exactStress, 1e-9) || !near(stress.X, L/2, 1e-9) ||
+		!stress.HasFE || !near(stress.FE, feStress, 1e-9) || stress.Status != Fail {
+		t.Errorf("stress: %+v; want exact %g at %g (fail against 25 MPa), FE %g beside", stress, exactStress, L/2, feStress)
+	}
+	if !strings.Contains(stress.Message, "exact solution") || !strings.Contains(stress.Message, "finite element solution on this mesh gives 20.00 MPa") {
+		t.Errorf("stress message does not give both: %q", stress.Message)
+	}
+	deflection := find(t, results, "Deflection, span")
+	if !deflection.Exact || !near(deflection.Value, exactDeflection, 1e-9) || !near(deflection.FE, feDeflection, 1e-9) {
+		t.Errorf("deflection %g (FE %g), want exact %g with FE %g beside", deflection.Value, deflection.FE, exactDeflection, feDeflection)
+	}
+
+	alone := find(t, Run(&m, s, nil, Options{}), "Stress, segment 1")
+	if alone.Exact || alone.HasFE || !near(alone.Value, feStress, 1e-9) || alone.Status == Fail {
+		t.Errorf("without an exact solution: %+v; want the finite element %g, within the 25 MPa limit", alone, feStress)
+	}
+	if !strings.Contains(alone.Message, "no exact solution") {
+		t.Errorf("without an exact solution the message must say so: %q", alone.Message)
+	}
+}

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strings"
 
 	"stave/fem"
 	"stave/fem/units"
@@ -13,16 +14,20 @@ import (
 // allowable stress over the safety factor.
 func stressChecks(p *Probe, o Options) []Result {
 	var out []Result
+	h := p.headline()
 	for i, seg := range p.model.Segments {
-		r := Result{Name: fmt.Sprintf("Stress, segment %d", i+1), Span: [2]float64{seg.Start, seg.End}}
-		where := p.stress[i].x
-		r.X, r.Value = where, math.Abs(p.stress[i].value)
+		r := Result{Name: fmt.Sprintf("Stress, segment %d", i+1), Code: CodeStress, Unit: "Pa", Span: [2]float64{seg.Start, seg.End}}
+		where := h.stress[i].x
+		r.X, r.Value = where, math.Abs(h.stress[i].value)
+		fe := peak{math.Abs(p.fe.stress[i].value), p.fe.stress[i].x}
+		p.beside(&r, fe)
 		stress := o.Units.Format(units.Stress, r.Value)
 		at := o.Units.Format(units.Position, where)
 		allowable := seg.Material.Allowable
 		if !(allowable > 0) {
 			r.Status = Info
-			r.Message = fmt.Sprintf("The largest combined stress is %s at x = %s. No allowable stress is given for this segment's material, so it is not checked: enter one to get a utilisation.", stress, at)
+			r.Message = fmt.Sprintf("The largest combined stress is %s at x = %s, from %s. %sNo allowable stress is given for this segment's material, so it is not checked: enter one to get a utilisation.",
+				stress, at, p.fromWhat(), p.feBeside(o, units.Stress, r.Value, fe))
 			out = append(out, r)
 			continue
 		}
@@ -32,8 +37,9 @@ func stressChecks(p *Probe, o Options) []Result {
 		if utilisation > 1 {
 			r.Status = Fail
 		}
-		r.Message = fmt.Sprintf("Utilisation %.2f: the largest combined stress (axial plus bending, worst fibre) is %s at x = %s, from %s; the limit is the allowable %s divided by the safety factor %.3g = %s. ",
-			utilisation, stress, at, p.fromWhat(), o.Units.Format(units.Stress, allowable), o.SafetyFactor, o.Units.Format(units.Stress, r.Limit))
+		r.Message = fmt.Sprintf("Utilisation %.2f: the largest combined stress (axial plus bending, worst fibre) is %s at x = %s, from %s; the limit is the allowable %s divided by the safety factor %.3g = %s. %s",
+			utilisation, stress, at, p.fromWhat(), o.Units.Format(units.Stress, allowable), o.SafetyFactor, o.Units.Format(units.Stress, r.Limit),
+			p.feBeside(o, units.Stress, r.Value, fe))
 		if r.Status == Fail {
 			r.Message += "Above 1 the member is overstressed: a larger section, a stronger material, or less load is needed. "
 		}
@@ -107,12 +113,14 @@ func stretches(m *fem.Model) []stretch {
 // supports (so settlements do not count) against span/n.
 func deflectionChecks(p *Probe, o Options) []Result {
 	if len(p.parts) == 0 {
-		return []Result{{Name: "Deflection", Status: Info,
+		return []Result{{Name: "Deflection", Code: CodeDeflection, Status: Info,
 			Message: "No support restrains deflection rigidly, so there is no span to measure deflection against; deflection is not checked."}}
 	}
 	var out []Result
+	h := p.headline()
 	for k, st := range p.parts {
-		r := Result{Span: [2]float64{st.a, st.b}, Value: p.deflection[k].value, X: p.deflection[k].x}
+		r := Result{Code: CodeDeflection, Unit: "m", Span: [2]float64{st.a, st.b}, Value: h.deflection[k].value, X: h.deflection[k].x}
+		p.beside(&r, p.fe.deflection[k])
 		length := st.b - st.a
 		n := o.SpanRatio
 		kind := "span"
@@ -131,6 +139,9 @@ func deflectionChecks(p *Probe, o Options) []Result {
 			kind, n, o.Units.Format(units.Deflection, r.Limit))
 		if st.overhangs {
 			r.Message += " For a cantilever or an overhang the limit uses its own length, and the deflection includes the tilt of the beam over the support."
+		}
+		if s := p.feBeside(o, units.Deflection, r.Value, p.fe.deflection[k]); s != "" {
+			r.Message += " " + strings.TrimSpace(s)
 		}
 		if r.Status == Fail {
 			r.Message += " Too much deflection cracks finishes and makes floors feel bouncy: a deeper section or a shorter span helps most."

@@ -139,10 +139,13 @@ func Handbook(m *fem.Model) (Case, bool) {
 
 func facts(m *fem.Model) (memberFacts, bool) {
 	var f memberFacts
-	if len(m.Segments) != 1 || m.TemperatureChange != 0 {
+	if len(m.Segments) != 1 || m.TemperatureChange != 0 || len(m.Hinges) > 0 || len(m.Foundations) > 0 || len(m.Cases) > 0 {
 		return f, false
 	}
 	seg := m.Segments[0]
+	if seg.TemperatureDifference != 0 || seg.ShearDeformation {
+		return f, false // the tables are for Euler–Bernoulli beams without thermal bending
+	}
 	f.length, f.elastic, f.area, f.second = m.Length(), seg.Material.Elastic, seg.Section.Area, seg.Section.SecondMoment
 	for _, s := range m.Supports {
 		if s.Stiffness != [3]float64{} || s.Settlement != [3]float64{} {

@@ -3,6 +3,7 @@ package check
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"stave/fem"
 	"stave/fem/units"
@@ -13,33 +14,54 @@ import (
 // many orders below this, so a failure means a real defect.
 const equilibriumTolerance = 1e-6
 
-// equilibriumChecks compares applied loads with reactions in each direction.
-func equilibriumChecks(m *fem.Model, s *fem.Solution, o Options) []Result {
-	eq := s.Equilibrium
+// equilibriumChecks compares applied loads with reactions in each
+// direction, the reactions of the finite element solution s and, when e is
+// not nil, those of the exact solution, which the reports lead with.
+func equilibriumChecks(m *fem.Model, s *fem.Solution, e *fem.Exact, o Options) []Result {
+	balances := []fem.Equilibrium{s.Equilibrium}
+	if e != nil {
+		balances = append(balances, e.Balance(s.Equilibrium.Applied))
+	}
 	forceScale := 0.0
-	for i := range 2 {
-		forceScale = math.Max(forceScale, math.Max(math.Abs(eq.Applied[i]), math.Abs(eq.Reactions[i])))
+	for _, eq := range balances {
+		for i := range 2 {
+			forceScale = math.Max(forceScale, math.Max(math.Abs(eq.Applied[i]), math.Abs(eq.Reactions[i])))
+		}
 	}
 	directions := []struct {
 		name, what string
 		kind       units.Kind
-		scale      float64
+		unit       string
 	}{
-		{"axial forces", "forces along the member", units.Force, forceScale},
-		{"transverse forces", "forces across the member", units.Force, forceScale},
-		{"moments about x = 0", "moments about the left end", units.Moment,
-			math.Max(math.Max(math.Abs(eq.Applied[2]), math.Abs(eq.Reactions[2])), forceScale*m.Length())},
+		{"axial forces", "forces along the member", units.Force, "N"},
+		{"transverse forces", "forces across the member", units.Force, "N"},
+		{"moments about x = 0", "moments about the left end", units.Moment, "N·m"},
 	}
 	var out []Result
 	for i, d := range directions {
-		r := Result{Name: "Equilibrium, " + d.name, Kind: Verification, Value: eq.Applied[i], Limit: -eq.Reactions[i], Span: [2]float64{0, m.Length()}}
-		residual := eq.Applied[i] + eq.Reactions[i]
+		eq := balances[len(balances)-1] // the headline reactions
+		r := Result{Name: "Equilibrium, " + d.name, Code: CodeEquilibrium, Kind: Verification, Value: eq.Applied[i], Limit: -eq.Reactions[i],
+			Unit: d.unit, Exact: e != nil, Span: [2]float64{0, m.Length()}}
 		r.Status = Pass
-		if math.Abs(residual) > equilibriumTolerance*d.scale {
-			r.Status = Fail
+		var parts []string
+		for k, b := range balances {
+			scale := forceScale
+			if i == 2 {
+				scale = math.Max(math.Max(math.Abs(b.Applied[2]), math.Abs(b.Reactions[2])), forceScale*m.Length())
+			}
+			residual := b.Applied[i] + b.Reactions[i]
+			if math.Abs(residual) > equilibriumTolerance*scale {
+				r.Status = Fail
+			}
+			whose := "finite element"
+			if k == 1 {
+				whose = "exact"
+			}
+			parts = append(parts, fmt.Sprintf("the %s reactions to %s (difference %s)", whose,
+				o.Units.Format(d.kind, b.Reactions[i]), o.Units.Format(d.kind, residual)))
 		}
-		r.Message = fmt.Sprintf("The applied %s add up to %s and the reactions to %s; in equilibrium they cancel (difference %s). ",
-			d.what, o.Units.Format(d.kind, eq.Applied[i]), o.Units.Format(d.kind, eq.Reactions[i]), o.Units.Format(d.kind, residual))
+		r.Message = fmt.Sprintf("The applied %s add up to %s and %s; in equilibrium they cancel. ",
+			d.what, o.Units.Format(d.kind, eq.Applied[i]), strings.Join(parts, ", "))
 		if r.Status == Fail {
 			r.Message += "They do not: the results cannot be trusted. Look for warnings about conditioning, and report the model."
 		} else {
@@ -52,7 +74,7 @@ func equilibriumChecks(m *fem.Model, s *fem.Solution, o Options) []Result {
 
 // exactCheck measures the finite element error against the exact solution.
 func exactCheck(p *Probe, o Options) Result {
-	r := Result{Name: "Error against the exact solution", Kind: Verification, Limit: o.ErrorLimit, Span: [2]float64{0, p.model.Length()}}
+	r := Result{Name: "Error against the exact solution", Code: CodeExactError, Kind: Verification, Limit: o.ErrorLimit, Span: [2]float64{0, p.model.Length()}}
 	if p.exact == nil {
 		r.Status = Info
 		r.Message = "No exact solution is available for this model, so the finite element error is not measured: compare a finer mesh instead."
@@ -64,42 +86,74 @@ func exactCheck(p *Probe, o Options) Result {
 	if r.Value > r.Limit {
 		r.Status = Warn
 	}
-	r.Message = fmt.Sprintf("The finite element stresses differ from the exact ones by at most %.3g %% of the largest stress (worst near x = %s); the error in energy is %.3g %%. ",
-		100*r.Value, o.Units.Format(units.Position, r.X), 100*norms.RelativeEnergy)
+	r.Message = fmt.Sprintf("The finite element stresses differ from the exact ones by at most %.3g %% of the largest stress (worst near x = %s); the %s is %.3g %%. ",
+		100*r.Value, o.Units.Format(units.Position, r.X), fem.EnergyErrorName, 100*norms.RelativeEnergy)
 	if r.Status == Warn {
-		r.Message += fmt.Sprintf("That is more than %.3g %%: use more elements, especially where the error is largest.", 100*r.Limit)
+		r.Message += fmt.Sprintf("That is more than %.3g %%: the headline values are the exact ones, but the finite element diagrams and values are off by that much; use more elements, or leave the mesh to Stave.", 100*r.Limit)
 	} else {
 		r.Message += "The mesh is fine enough for these loads."
 	}
 	return r
 }
 
-// handbookCheck compares the finite element solution with a handbook case
-// when the model is one.
-func handbookCheck(m *fem.Model, s *fem.Solution, o Options) []Result {
+// handbookCheck compares the solution the reports lead with (the exact
+// solution e, or s without it) with a handbook case when the model is one,
+// the finite element value beside an exact one.
+func handbookCheck(m *fem.Model, s *fem.Solution, e *fem.Exact, o Options) []Result {
 	c, ok := Handbook(m)
 	if !ok {
 		return nil
 	}
 	var out []Result
 	for _, q := range c.Quantities {
-		r := Result{Name: "Handbook: " + q.Name, Kind: Verification, X: q.X, Limit: q.Value, Span: [2]float64{0, m.Length()}}
-		v, found := q.Read(s, s.Reactions)
+		r := Result{Name: "Handbook: " + q.Name, Code: CodeHandbook, Kind: Verification, X: q.X, Limit: q.Value,
+			Unit: siUnit(q.Kind), Span: [2]float64{0, m.Length()}}
+		fe, found := q.Read(s, s.Reactions)
 		if !found {
 			continue
 		}
-		r.Value = v
-		difference := math.Abs(v-q.Value) / math.Abs(q.Value)
+		r.Value = fe
+		who := "Stave's finite element solution"
+		if e != nil {
+			if v, ok := q.Read(e, e.Reactions()); ok {
+				r.Value, r.Exact, r.FE, r.FEX, r.HasFE = v, true, fe, q.X, true
+				who = "Stave's exact solution"
+			}
+		}
+		difference := math.Abs(r.Value-q.Value) / math.Abs(q.Value)
 		r.Status = Pass
 		if difference > o.HandbookTolerance {
 			r.Status = Warn
 		}
-		r.Message = fmt.Sprintf("%s: Stave gives %s, the handbook %s (%s; %s), a difference of %.3g %%.",
-			c.Name, o.Units.Format(q.Kind, v), o.Units.Format(q.Kind, q.Value), c.Formula, c.Source, 100*difference)
-		if r.Status == Warn {
+		r.Message = fmt.Sprintf("%s: %s gives %s, the handbook %s (%s; %s), a difference of %.3g %%.",
+			c.Name, who, o.Units.Format(q.Kind, r.Value), o.Units.Format(q.Kind, q.Value), c.Formula, c.Source, 100*difference)
+		if r.Exact {
+			r.Message += fmt.Sprintf(" The finite element solution on this mesh gives %s.", o.Units.Format(q.Kind, fe))
+		}
+		switch {
+		case r.Status == Warn && r.Exact:
+			r.Message += " The exact solution should match the handbook: the model differs from the handbook case, or Stave is wrong here; report the model."
+		case r.Status == Warn:
 			r.Message += " Between nodes the finite element values converge as the mesh is refined: add elements and look again."
 		}
 		out = append(out, r)
 	}
 	return out
+}
+
+// siUnit is the SI symbol of values of kind k, as fem keeps them.
+func siUnit(k units.Kind) string {
+	switch k {
+	case units.Position, units.Dimension, units.Deflection:
+		return "m"
+	case units.Rotation:
+		return "rad"
+	case units.Force:
+		return "N"
+	case units.Moment:
+		return "N·m"
+	case units.Stress, units.Modulus:
+		return "Pa"
+	}
+	return units.SI.Unit(k).Symbol
 }

@@ -61,7 +61,7 @@ func Adapt(ctx context.Context, m *fem.Model, target float64, maxElements int) (
 		indicators, estimated := Estimate(s, keys)
 		it := Iteration{Elements: len(s.Mesh.Elements), Estimated: estimated, True: fem.Compare(s, exact).RelativeEnergy}
 		it.Effectivity = math.NaN()
-		if it.True > roundOff {
+		if it.True > RoundOff {
 			it.Effectivity = it.Estimated / it.True
 		}
 		out.Iterations = append(out.Iterations, it)
@@ -206,18 +206,32 @@ type Versus struct {
 	AdaptiveTrue    float64 // true relative energy error of the final adaptive mesh
 	UniformElements int     // fewest uniform elements (BuildMesh with Mesh.Elements) reaching AdaptiveTrue
 	UniformTrue     float64 // its true relative energy error
+	// Exact says the adaptive mesh's error is at round-off: the finite
+	// element answer is exact for this model, and uniform refinement is
+	// not compared (UniformElements 0).
+	Exact bool
 }
+
+// sameError is the relative tolerance within which two true errors count
+// as the same: the one mesh reached two ways gives errors a few units in
+// the last place apart.
+const sameError = 1e-9
 
 // AgainstUniform runs Adapt and then finds the fewest elements a uniform
 // mesh (every stretch divided in proportion to its length, as BuildMesh
-// does) needs to reach the same true error, searching up to maxUniform
-// elements. It stops with ctx's error when ctx is done before a mesh.
+// does) needs to reach the same true error (to sameError), searching up to
+// maxUniform elements. It stops with ctx's error when ctx is done before a
+// mesh.
 func AgainstUniform(ctx context.Context, m *fem.Model, target float64, maxElements, maxUniform int) (Versus, error) {
 	a, err := Adapt(ctx, m, target, maxElements)
 	if err != nil {
 		return Versus{}, err
 	}
 	v := Versus{Adaptive: a, AdaptiveTrue: a.Iterations[len(a.Iterations)-1].True}
+	if v.AdaptiveTrue <= RoundOff {
+		v.Exact = true
+		return v, nil
+	}
 	exact, err := fem.SolveExact(m)
 	if err != nil {
 		return v, err
@@ -234,6 +248,7 @@ func AgainstUniform(ctx context.Context, m *fem.Model, target float64, maxElemen
 		}
 		return len(s.Mesh.Elements), fem.Compare(s, exact).RelativeEnergy, nil
 	}
+	reaches := func(e float64) bool { return e <= v.AdaptiveTrue*(1+sameError) }
 	// Double to bracket the answer, then bisect on the requested count.
 	low, high := 0, 1
 	for {
@@ -241,7 +256,7 @@ func AgainstUniform(ctx context.Context, m *fem.Model, target float64, maxElemen
 		if err != nil {
 			return v, err
 		}
-		if e <= v.AdaptiveTrue {
+		if reaches(e) {
 			v.UniformElements, v.UniformTrue = count, e
 			break
 		}
@@ -256,7 +271,7 @@ func AgainstUniform(ctx context.Context, m *fem.Model, target float64, maxElemen
 		if err != nil {
 			return v, err
 		}
-		if e <= v.AdaptiveTrue {
+		if reaches(e) {
 			high, v.UniformElements, v.UniformTrue = mid, count, e
 		} else {
 			low = mid

@@ -63,18 +63,78 @@ func TestConvergenceRates(t *testing.T) {
 			t.Logf("%s: %3d elements  stress %.3e (rate %.2f)  L2 %.3e (rate %.2f)  energy %.3e (rate %.2f)",
 				c.name, r.Elements, r.MaxStress, r.StressRate, r.L2, r.L2Rate, r.Energy, r.EnergyRate)
 		}
-		t.Logf("%s: least-squares rates: stress %.3f, L2 %.3f, energy %.3f", c.name, table.StressRate, table.L2Rate, table.EnergyRate)
+		t.Logf("%s: least-squares rates: stress %.3f, L2 %.3f, energy %.3f", c.name, table.Stress.Fitted, table.L2.Fitted, table.Energy.Fitted)
 		if len(table.Rows) != 6 {
 			t.Errorf("%s: %d rows for 1..32 per stretch, want 6", c.name, len(table.Rows))
 		}
 		for _, q := range []struct {
 			what        string
 			got, theory float64
-		}{{"stress", table.StressRate, c.stress}, {"L2", table.L2Rate, c.l2}, {"energy", table.EnergyRate, c.energy}} {
+		}{{"stress", table.Stress.Fitted, c.stress}, {"L2", table.L2.Fitted, c.l2}, {"energy", table.Energy.Fitted, c.energy}} {
 			if math.IsNaN(q.got) || math.Abs(q.got-q.theory) > 0.15 {
 				t.Errorf("%s: %s rate %.3f, theory %g", c.name, q.what, q.got, q.theory)
 			}
 		}
+	}
+}
+
+// A simple beam under a uniform transverse and a uniform axial load: the
+// bending error (Hermite cubics: L2 rate 4, energy 2) dominates the coarse
+// meshes and the axial one (linear bars: 2 and 1) the fine ones, so a fit
+// over every row read about 2.7 and 1.4, rates no step shows. The rates
+// are fitted over the asymptotic rows and must be the linear bar's
+// (Strang & Fix, ch. 1 and 3, from memory), as the last step's are.
+func TestConvergenceRatesOfTheAsymptoticRows(t *testing.T) {
+	m := member(4, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}})
+	m.DistributedLoad = []fem.DistributedLoad{
+		{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 4, Intensity: -10e3}}},
+		{Direction: fem.Axial, Points: []fem.LoadPoint{{X: 0, Intensity: 5e3}, {X: 4, Intensity: 5e3}}}}
+	table, err := Convergence(context.Background(), &m, 1024)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, q := range []struct {
+		what   string
+		rate   Rate
+		theory float64
+	}{{"L2", table.L2, 2}, {"energy", table.Energy, 1}} {
+		if math.Abs(q.rate.Fitted-q.theory) > 0.05 || math.Abs(q.rate.Last-q.theory) > 0.01 {
+			t.Errorf("%s: fitted %.3f over rows %d on, last step %.3f; theory %g", q.what, q.rate.Fitted, q.rate.From, q.rate.Last, q.theory)
+		}
+		if q.rate.From < 3 {
+			t.Errorf("%s: fitted from row %d, where the bending error still dominates", q.what, q.rate.From)
+		}
+	}
+	if table.Exact {
+		t.Error("a model with distributed loads is reported as solved exactly")
+	}
+}
+
+// With point loads only, linear bars and Hermite beams reproduce the exact
+// solution (Hughes, The Finite Element Method, ch. 1, nodal exactness in
+// one dimension, from memory): the study says so and measures no rate of
+// round-off, and neither does the comparison with uniform refinement.
+func TestConvergenceExactForTheModel(t *testing.T) {
+	m := member(4, []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 3, Kind: fem.Roller}})
+	m.PointLoads = []fem.PointLoad{{X: 1.5, Transverse: -20e3, Axial: 5e3}, {X: 4, Moment: 3e3}}
+	table, err := Convergence(context.Background(), &m, 64)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !table.Exact {
+		t.Errorf("point loads only: not reported exact; rows %+v", table.Rows)
+	}
+	for _, r := range []Rate{table.Stress, table.L2, table.Energy} {
+		if !math.IsNaN(r.Fitted) || !math.IsNaN(r.Last) {
+			t.Errorf("a rate %+v was measured on round-off", r)
+		}
+	}
+	v, err := AgainstUniform(context.Background(), &m, 0.01, 1000, 1000)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !v.Exact {
+		t.Errorf("the adaptive comparison of an exact model compares round-off: %+v", v)
 	}
 }
 
@@ -127,6 +187,25 @@ func TestAdaptiveBeatsUniform(t *testing.T) {
 	}
 	if v.UniformTrue > v.AdaptiveTrue {
 		t.Errorf("uniform error %.3e above the adaptive %.3e it should match", v.UniformTrue, v.AdaptiveTrue)
+	}
+}
+
+// Where adaptive refinement halves every element, its mesh is a uniform
+// one, reached by halving instead of dividing: the true errors of the two
+// differ in the last bits, and uniform refinement must be found to need
+// the same number of elements, not the next count up (here 17 for 16).
+func TestUniformMatchesAnAdaptiveMeshThatIsUniform(t *testing.T) {
+	const L = 5.3
+	m := member(L, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L, Kind: fem.Roller}})
+	m.DistributedLoad = []fem.DistributedLoad{{Direction: fem.Transverse,
+		Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: L, Intensity: -10e3}}}}
+	v, err := AgainstUniform(context.Background(), &m, 0.003, 1000, 1000)
+	if err != nil {
+		t.Fatal(err)
+	}
+	adaptive := len(v.Adaptive.Nodes) - 1
+	if adaptive != 16 || v.UniformElements != adaptive {
+		t.Errorf("adaptive %d elements (true error %.17g), uniform %d (%.17g); want 16 and 16", adaptive, v.AdaptiveTrue, v.UniformElements, v.UniformTrue)
 	}
 }
 

@@ -48,6 +48,7 @@ const (
 	RotationalStiffness                // kN·m/rad / kip·in/rad
 	Acceleration                       // m/s² / ft/s²
 	Energy                             // J / kip·in
+	FoundationModulus                  // kN/m² / kip/ft²: force per length of member per deflection
 	kindCount
 )
 
@@ -56,7 +57,7 @@ var kindNames = [kindCount]string{
 	"line load", "stress", "modulus", "area", "second moment of area",
 	"section modulus", "density", "thermal expansion coefficient",
 	"temperature change", "translational stiffness", "rotational stiffness",
-	"acceleration", "energy",
+	"acceleration", "energy", "foundation modulus",
 }
 
 // String names the quantity in plain words, for messages.
@@ -124,6 +125,7 @@ var SI = System{Name: "SI", Units: [kindCount]Unit{
 	RotationalStiffness:    {"kN·m/rad", 1e3},
 	Acceleration:           {"m/s²", 1},
 	Energy:                 {"J", 1},
+	FoundationModulus:      {"kN/m²", 1e3},
 }}
 
 // USCustomary uses ft for positions, in for dimensions and deflections, kips
@@ -148,6 +150,7 @@ var USCustomary = System{Name: "US", Units: [kindCount]Unit{
 	RotationalStiffness:    {"kip·in/rad", kip * inch},
 	Acceleration:           {"ft/s²", foot},
 	Energy:                 {"kip·in", kip * inch},
+	FoundationModulus:      {"kip/ft²", kip / (foot * foot)},
 }}
 
 // extraUnits are further units Parse accepts for a quantity, beyond the two
@@ -171,6 +174,7 @@ var extraUnits = map[Kind][]Unit{
 	RotationalStiffness:    {{"N·m/rad", 1}, {"kip·ft/rad", kip * foot}},
 	Acceleration:           {{"g", standardGravity}},
 	Energy:                 {{"kJ", 1e3}, {"N·m", 1}, {"ft·lbf", foot * poundForce}},
+	FoundationModulus:      {{"N/m²", 1}, {"MN/m²", 1e6}, {"kip/in²", kip / (inch * inch)}, {"lbf/in²", poundForce / (inch * inch)}},
 }
 
 // Systems lists the display systems, SI first.

@@ -60,6 +60,9 @@ func TestFactorsAgainstNIST811(t *testing.T) {
 		{"ft·lbf", extra(t, Energy, "ft·lbf").ToSI, 1.355818, 5e-7},
 		// B.8: pound-force per square inch (psi) to pascal = 6.894 757 E+03.
 		{"psi", extra(t, Stress, "psi").ToSI, 6.894757e3, 5e-7},
+		// B.8: pound-force per square foot to pascal = 4.788 026 E+01, so a
+		// kip per foot of member per foot of deflection is 4.788 026 E+04 N/m².
+		{"kip/ft²", USCustomary.Unit(FoundationModulus).ToSI, 4.788026e4, 5e-7},
 	}
 	for _, c := range cases {
 		if rel := math.Abs(c.got-c.want) / c.want; rel > c.relative {
@@ -85,6 +88,7 @@ func TestSIDisplayFactors(t *testing.T) {
 		Position: 1, Dimension: 1e-3, Deflection: 1e-3, Force: 1e3, Moment: 1e3,
 		LineLoad: 1e3, Stress: 1e6, Modulus: 1e9, Area: 1e-6, SecondMoment: 1e-6,
 		SectionModulus: 1e-6, TranslationalStiffness: 1e3, RotationalStiffness: 1e3,
+		FoundationModulus: 1e3,
 	}
 	for q, f := range want {
 		if got := SI.Unit(q).ToSI; got != f {

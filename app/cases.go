@@ -1,0 +1,525 @@
+package app
+
+import (
+	"fmt"
+	"strconv"
+	"strings"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/dialog"
+	"fyne.io/fyne/v2/theme"
+	"fyne.io/fyne/v2/widget"
+
+	"stave/fem"
+	"stave/fem/analysis"
+	"stave/storage"
+)
+
+// Load cases in the window. The window edits one case at a time: while it
+// does, that case's loads and temperature change sit in the model's own
+// load fields (the editing form), so every tool, form and drag edits them
+// as it edits a model without cases, and the drawing shows them (the
+// other cases' loads are hidden). The solver, the file, the history and
+// the exports see the model with every load in its case (the canonical
+// form): lowerCase and liftCase turn one into the other.
+
+// liftCase is m in the editing form of case k: case k's point and
+// distributed loads and temperature change moved to the model's own
+// fields. A model without cases is its own editing form.
+func liftCase(m fem.Model, k int) fem.Model {
+	if len(m.Cases) == 0 {
+		return m
+	}
+	m = m.Clone()
+	k = min(max(k, 0), len(m.Cases)-1)
+	c := &m.Cases[k]
+	m.PointLoads, m.DistributedLoad, m.TemperatureChange = c.PointLoads, c.DistributedLoad, c.TemperatureChange
+	c.PointLoads, c.DistributedLoad, c.TemperatureChange = nil, nil, 0
+	return m
+}
+
+// lowerCase is the inverse of liftCase: m, in the editing form of case k,
+// with its own loads back in case k.
+func lowerCase(m fem.Model, k int) fem.Model {
+	if len(m.Cases) == 0 {
+		return m
+	}
+	m = m.Clone()
+	k = min(max(k, 0), len(m.Cases)-1)
+	c := &m.Cases[k]
+	c.PointLoads = append(c.PointLoads, m.PointLoads...)
+	c.DistributedLoad = append(c.DistributedLoad, m.DistributedLoad...)
+	c.TemperatureChange += m.TemperatureChange
+	m.PointLoads, m.DistributedLoad, m.TemperatureChange = nil, nil, 0
+	return m
+}
+
+// canonicalModel is the window's model with every load in its case.
+func (w *Window) canonicalModel() fem.Model { return lowerCase(w.project.Model, w.editCase) }
+
+// canonical is the window's project as files and exports hold it.
+func (w *Window) canonical() storage.Project {
+	p := cloneProject(w.project)
+	p.Model = w.canonicalModel()
+	return p
+}
+
+// validate checks m, in the editing form, as fem checks the canonical
+// model, with the problems of the edited case's loads placed on the
+// model's own, as the editing form holds them; it lets a case stay empty
+// while the user fills it (the solver then says the case is empty, and
+// what to do).
+func (w *Window) validate(m *fem.Model) error {
+	c := lowerCase(*m, w.editCase)
+	err := validate(&c)
+	ve, ok := err.(*fem.ValidationError)
+	if !ok {
+		return err
+	}
+	var rest []fem.Problem
+	for _, p := range ve.Problems {
+		if p.Place.Item.Kind == fem.CaseItem && p.Place.Property == fem.NoProperty && strings.Contains(p.Message, "is empty") {
+			continue
+		}
+		if p.Place.Item.Case == w.editCase+1 && len(m.Cases) > 0 {
+			p.Place.Item.Case = 0
+		}
+		rest = append(rest, p)
+	}
+	if len(rest) == 0 {
+		return nil
+	}
+	return &fem.ValidationError{Problems: rest}
+}
+
+// fromHistory is m, a model of the history (every load in its case), in
+// the editing form of the case edited, or of the last when it has fewer.
+func (w *Window) fromHistory(m fem.Model) fem.Model {
+	w.editCase = max(min(w.editCase, len(m.Cases)-1), 0)
+	return liftCase(m, w.editCase)
+}
+
+// showEnvelope fills the readout with the envelope at x when the analysis
+// shows one: the smallest and largest value of each quantity, and the
+// combinations that give them. False when it shows one solution.
+func (r *readout) showEnvelope(w *Window, x float64) bool {
+	a := w.result
+	if a.Cases == nil || a.Cases.Show.Kind != analysis.ShowEnvelope {
+		return false
+	}
+	c := a.Cases
+	fe := c.Solutions.At(x, fem.Right, false)
+	ex, exact := fe, c.Solutions.FixedExact != nil
+	if exact {
+		ex = c.Solutions.At(x, fem.Right, true)
+	}
+	r.at.SetText(fmt.Sprintf("At x = %s (under the mouse): the envelope of %d combinations, smallest … largest, and the combinations that give them", w.position(x), len(c.Combinations)))
+	r.fill(w.units, func(q fem.Quantity) (string, string) {
+		unit := q.Info().Unit
+		span := func(s *fem.EnvelopeSample) string {
+			return shortNumber(w.units.ToDisplay(unit, q.Of(&s.Lo))) + " … " + shortNumber(w.units.ToDisplay(unit, q.Of(&s.Hi)))
+		}
+		by := " (" + c.Combinations[ex.LoBy[q]].Name + " / " + c.Combinations[ex.HiBy[q]].Name + ")"
+		if !exact {
+			return "—", span(&fe) + by
+		}
+		return span(&ex) + by, span(&fe)
+	})
+	return true
+}
+
+// casesPanel is the list of load cases, the case being edited, what the
+// drawing shows and the combinations.
+type casesPanel struct {
+	w                               *Window
+	box                             *fyne.Container
+	caseSelect, showSelect          *widget.Select
+	selfWeight, settlements, bySpan *widget.Check
+	showing                         []analysis.Show // the choices of showSelect
+	updating                        bool            // set while the panel sets its own widgets
+}
+
+// newCasesPanel builds the panel; refresh fills it.
+func newCasesPanel(w *Window) *casesPanel {
+	c := &casesPanel{w: w}
+	c.caseSelect = widget.NewSelect(nil, func(s string) {
+		if !c.updating {
+			w.chooseCase(c.caseSelect.SelectedIndex())
+		}
+	})
+	c.showSelect = widget.NewSelect(nil, func(string) {
+		if i := c.showSelect.SelectedIndex(); !c.updating && i >= 0 && i < len(c.showing) {
+			w.setShow(c.showing[i])
+		}
+	})
+	flag := func(label string, set func(lc *fem.LoadCase, on bool)) *widget.Check {
+		var ch *widget.Check
+		ch = widget.NewCheck(label, func(on bool) {
+			if !c.updating {
+				w.setCaseFlag(label, on, set)
+			}
+		})
+		return ch
+	}
+	c.selfWeight = flag("self-weight", func(lc *fem.LoadCase, on bool) { lc.SelfWeight = on })
+	c.settlements = flag("settlements", func(lc *fem.LoadCase, on bool) { lc.Settlements = on })
+	c.bySpan = flag("placed by span", func(lc *fem.LoadCase, on bool) { lc.BySpan = on })
+	c.box = container.NewVBox(heading("Load cases"),
+		widget.NewLabel("Editing"), c.caseSelect,
+		// Icons keep the tool strip narrow: add, rename, delete.
+		container.NewGridWithColumns(3, widget.NewButtonWithIcon("", theme.ContentAddIcon(), w.addCase),
+			widget.NewButtonWithIcon("", theme.DocumentCreateIcon(), w.renameCase), widget.NewButtonWithIcon("", theme.DeleteIcon(), w.deleteCase)),
+		c.selfWeight, c.settlements, c.bySpan,
+		widget.NewButton("Combinations…", w.showCombinations))
+	return c
+}
+
+// refresh shows the model's cases and what is shown.
+func (c *casesPanel) refresh() {
+	w := c.w
+	m := &w.project.Model
+	c.updating = true
+	defer func() { c.updating = false }()
+	names := make([]string, m.LoadSetCount())
+	for k := range names {
+		names[k] = m.LoadSetName(k)
+	}
+	c.caseSelect.Options = names
+	c.caseSelect.SetSelectedIndex(min(w.editCase, len(names)-1))
+	hasCases := len(m.Cases) > 0
+	for _, ch := range []*widget.Check{c.selfWeight, c.settlements, c.bySpan} {
+		if hasCases {
+			ch.Enable()
+		} else {
+			ch.Disable()
+		}
+	}
+	if hasCases {
+		lc := m.Cases[min(w.editCase, len(m.Cases)-1)]
+		c.selfWeight.SetChecked(lc.SelfWeight)
+		c.settlements.SetChecked(lc.Settlements)
+		c.bySpan.SetChecked(lc.BySpan)
+	}
+	c.showing = c.showing[:0]
+	var labels []string
+	if hasCases {
+		c.showing = append(c.showing, analysis.Show{Kind: analysis.ShowEnvelope})
+		labels = append(labels, "envelope")
+		for i, cb := range m.EnvelopeCombinations() {
+			c.showing = append(c.showing, analysis.Show{Kind: analysis.ShowCombination, Index: i})
+			labels = append(labels, "combination: "+cb.Name)
+		}
+		for k := range m.Cases {
+			c.showing = append(c.showing, analysis.Show{Kind: analysis.ShowCase, Index: k})
+			labels = append(labels, "case: "+m.Cases[k].Name)
+		}
+	} else {
+		c.showing = append(c.showing, analysis.Show{})
+		labels = append(labels, "the loads (no cases yet)")
+	}
+	c.showSelect.Options = labels
+	sel := 0
+	for i, s := range c.showing {
+		if s == w.show {
+			sel = i
+		}
+	}
+	c.showSelect.SetSelectedIndex(sel)
+}
+
+// changeCases applies change to the canonical model as one undoable edit,
+// then edits case k of the result.
+func (w *Window) changeCases(name string, k int, change func(m *fem.Model) error) error {
+	before := w.editCase
+	err := w.apply(name, func(m *fem.Model) error {
+		c := lowerCase(*m, before)
+		if err := change(&c); err != nil {
+			return err
+		}
+		w.editCase = k
+		*m = liftCase(c, k)
+		return nil
+	})
+	if err != nil {
+		w.editCase = before
+	}
+	w.ui.cases.refresh()
+	return err
+}
+
+// chooseCase edits case k.
+func (w *Window) chooseCase(k int) {
+	m := w.canonicalModel()
+	if len(m.Cases) == 0 || k < 0 || k >= len(m.Cases) || k == w.editCase {
+		return
+	}
+	w.editCase = k
+	w.selected = canvasNone
+	w.project.Model = liftCase(m, k)
+	w.modelChanged()
+	w.setStatus("editing load case %s: loads placed now go into it; the other cases' loads are hidden", m.Cases[k].Name)
+}
+
+// addCase asks for a name and adds an empty case, which becomes the one
+// edited. A model without cases first turns its loads into a case named
+// "loads".
+func (w *Window) addCase() {
+	m := w.canonicalModel()
+	entry := widget.NewEntry()
+	entry.SetText(fmt.Sprintf("case %d", m.LoadSetCount()+min(len(m.Cases), 1)))
+	dialog.ShowForm("Add a load case", "Add", "Cancel", []*widget.FormItem{widget.NewFormItem("Name", entry)}, func(ok bool) {
+		if !ok {
+			return
+		}
+		w.addCaseNamed(strings.TrimSpace(entry.Text))
+	}, w.win)
+}
+
+// addCaseNamed adds an empty case named name and edits it.
+func (w *Window) addCaseNamed(name string) error {
+	n := len(w.canonicalModel().Cases)
+	k := max(n, 1)
+	return w.changeCases("add load case "+name, k, func(m *fem.Model) error {
+		if len(m.Cases) == 0 {
+			*m = ownLoadsAsCase(*m)
+		}
+		m.Cases = append(m.Cases, fem.LoadCase{Name: name})
+		return nil
+	})
+}
+
+// ownLoadsAsCase is m, a model without cases, with its loads in one case
+// named "loads": its own loads and temperature, its self-weight and its
+// supports' settlements where it has them.
+func ownLoadsAsCase(m fem.Model) fem.Model {
+	lc := fem.LoadCase{Name: m.LoadSetName(0), PointLoads: m.PointLoads, DistributedLoad: m.DistributedLoad,
+		TemperatureChange: m.TemperatureChange, SelfWeight: m.Gravity != [2]float64{}}
+	for _, s := range m.Supports {
+		lc.Settlements = lc.Settlements || s.Settlement != [3]float64{}
+	}
+	m.PointLoads, m.DistributedLoad, m.TemperatureChange = nil, nil, 0
+	m.Cases = []fem.LoadCase{lc}
+	return m
+}
+
+// renameCase asks for a new name of the case edited.
+func (w *Window) renameCase() {
+	m := w.canonicalModel()
+	if len(m.Cases) == 0 {
+		w.setStatus("the model has no load cases yet: Add one first")
+		return
+	}
+	k := w.editCase
+	entry := widget.NewEntry()
+	entry.SetText(m.Cases[k].Name)
+	dialog.ShowForm("Rename the load case", "Rename", "Cancel", []*widget.FormItem{widget.NewFormItem("Name", entry)}, func(ok bool) {
+		if ok {
+			name := strings.TrimSpace(entry.Text)
+			w.changeCases("rename load case "+m.Cases[k].Name+" to "+name, k, func(m *fem.Model) error {
+				m.Cases[k].Name = name
+				return nil
+			})
+		}
+	}, w.win)
+}
+
+// deleteCase deletes the case edited, with its loads, and its factors
+// from every combination.
+func (w *Window) deleteCase() {
+	m := w.canonicalModel()
+	if len(m.Cases) == 0 {
+		w.setStatus("the model has no load cases to delete")
+		return
+	}
+	k := w.editCase
+	w.changeCases("delete load case "+m.Cases[k].Name, max(k-1, 0), func(m *fem.Model) error {
+		m.Cases = append(m.Cases[:k], m.Cases[k+1:]...)
+		for i := range m.Combinations {
+			cb := &m.Combinations[i]
+			var kept []fem.CaseFactor
+			for _, f := range cb.Factors {
+				if f.Case != k {
+					f.Case -= min(max(f.Case-k, 0), 1)
+					kept = append(kept, f)
+				}
+			}
+			cb.Factors = kept
+		}
+		var combos []fem.Combination
+		for _, cb := range m.Combinations {
+			if len(cb.Factors) > 0 {
+				combos = append(combos, cb)
+			}
+		}
+		m.Combinations = combos
+		if len(m.Cases) == 0 {
+			m.Combinations = nil
+		}
+		return nil
+	})
+	if w.show.Kind != analysis.ShowEnvelope {
+		w.setShow(analysis.Show{Kind: analysis.ShowEnvelope})
+	}
+}
+
+// setCaseFlag sets one flag of the case edited.
+func (w *Window) setCaseFlag(label string, on bool, set func(lc *fem.LoadCase, on bool)) {
+	k := w.editCase
+	w.changeCases(fmt.Sprintf("%s of load case %s: %v", label, w.project.Model.Cases[k].Name, on), k, func(m *fem.Model) error {
+		set(&m.Cases[k], on)
+		if label == "self-weight" && on && m.Gravity == [2]float64{} {
+			m.Gravity = [2]float64{0, -fem.StandardGravity}
+		}
+		return nil
+	})
+}
+
+// setShow picks what the drawing, the readout and the checks show.
+func (w *Window) setShow(s analysis.Show) {
+	if s == w.show {
+		return
+	}
+	w.show = s
+	w.resubmit()
+	w.ui.cases.refresh()
+	w.setStatus("showing %s", s.Title(&w.project.Model))
+}
+
+// showCombinations edits the combinations in a table: a row per
+// combination with its name and kind, a column per case holding its
+// factor (empty: the case is not taken).
+func (w *Window) showCombinations() {
+	m := w.canonicalModel()
+	if len(m.Cases) == 0 {
+		w.setStatus("the model has no load cases to combine: Add a case first")
+		return
+	}
+	t := newCombinationTable(m)
+	var d dialog.Dialog
+	message := widget.NewLabel("")
+	message.Wrapping = fyne.TextWrapWord
+	message.Importance = widget.DangerImportance
+	note := widget.NewLabel("Factors are yours: take them from your local code. The template rows are typical values only (" + templateNote + ").")
+	note.Wrapping = fyne.TextWrapWord
+	keep := widget.NewButton("Keep these combinations", func() {
+		combos, err := t.combinations()
+		if err != nil {
+			message.SetText(err.Error())
+			return
+		}
+		if w.changeCases("edit the combinations", w.editCase, func(m *fem.Model) error {
+			m.Combinations = combos
+			return nil
+		}) == nil {
+			d.Hide()
+		}
+	})
+	body := container.NewBorder(note, container.NewVBox(message, container.NewHBox(
+		widget.NewButton("Add a row", func() { t.addRow(fem.Combination{Kind: fem.Strength}) }),
+		widget.NewButton("Add typical templates", t.addTemplates),
+		keep)), nil, nil, container.NewScroll(t.grid))
+	d = dialog.NewCustom("Combinations", "Cancel", body, w.win)
+	d.Resize(fyne.NewSize(760, 420))
+	d.Show()
+}
+
+// templateNote marks every template.
+const templateNote = "typical; use the factors your local code gives"
+
+// combinationTable is the grid of the combinations dialog.
+type combinationTable struct {
+	cases []string
+	grid  *fyne.Container
+	rows  []combinationRow
+}
+
+type combinationRow struct {
+	name    *widget.Entry
+	kind    *widget.Select
+	label   string
+	factors []*widget.Entry
+}
+
+var kindNames = []string{fem.Strength.String(), fem.Serviceability.String(), fem.OtherCombination.String()}
+
+func newCombinationTable(m fem.Model) *combinationTable {
+	t := &combinationTable{}
+	for _, c := range m.Cases {
+		t.cases = append(t.cases, c.Name)
+	}
+	t.grid = container.NewGridWithColumns(len(t.cases) + 2)
+	t.grid.Add(heading("combination"))
+	t.grid.Add(heading("kind"))
+	for _, n := range t.cases {
+		t.grid.Add(heading(n))
+	}
+	for _, cb := range m.Combinations {
+		t.addRow(cb)
+	}
+	return t
+}
+
+// addRow adds a row showing cb.
+func (t *combinationTable) addRow(cb fem.Combination) {
+	r := combinationRow{name: widget.NewEntry(), kind: widget.NewSelect(kindNames, nil), label: cb.Label}
+	r.name.SetText(cb.Name)
+	r.kind.SetSelected(cb.Kind.String())
+	t.grid.Add(r.name)
+	t.grid.Add(r.kind)
+	for k := range t.cases {
+		e := widget.NewEntry()
+		for _, f := range cb.Factors {
+			if f.Case == k {
+				e.SetText(strconv.FormatFloat(f.Factor, 'g', -1, 64))
+			}
+		}
+		r.factors = append(r.factors, e)
+		t.grid.Add(e)
+	}
+	t.rows = append(t.rows, r)
+}
+
+// addTemplates adds two typical rows over every case: a strength row
+// (1.35 on the first case, 1.5 on the others) and a serviceability row
+// (1 on each), both marked typical.
+func (t *combinationTable) addTemplates() {
+	strength := fem.Combination{Name: fmt.Sprintf("strength %d", len(t.rows)+1), Kind: fem.Strength, Label: "strength (" + templateNote + ")"}
+	service := fem.Combination{Name: fmt.Sprintf("serviceability %d", len(t.rows)+2), Kind: fem.Serviceability, Label: "serviceability (" + templateNote + ")"}
+	for k := range t.cases {
+		f := 1.5
+		if k == 0 {
+			f = 1.35
+		}
+		strength.Factors = append(strength.Factors, fem.CaseFactor{Case: k, Factor: f})
+		service.Factors = append(service.Factors, fem.CaseFactor{Case: k, Factor: 1})
+	}
+	t.addRow(strength)
+	t.addRow(service)
+}
+
+// combinations reads the table; rows with no name and no factor are
+// left out. A factor that is not a number is refused with its place.
+func (t *combinationTable) combinations() ([]fem.Combination, error) {
+	var out []fem.Combination
+	for i, r := range t.rows {
+		cb := fem.Combination{Name: strings.TrimSpace(r.name.Text), Label: r.label}
+		cb.Kind, _ = fem.ParseCombinationKind(r.kind.Selected)
+		for k, e := range r.factors {
+			s := strings.TrimSpace(e.Text)
+			if s == "" {
+				continue
+			}
+			f, err := strconv.ParseFloat(s, 64)
+			if err != nil {
+				return nil, fmt.Errorf("row %d, %s: %q is not a factor; enter a number such as 1.35, or leave the cell empty", i+1, t.cases[k], s)
+			}
+			cb.Factors = append(cb.Factors, fem.CaseFactor{Case: k, Factor: f})
+		}
+		if cb.Name == "" && len(cb.Factors) == 0 {
+			continue
+		}
+		out = append(out, cb)
+	}
+	return out, nil
+}

@@ -1,0 +1,144 @@
+package app
+
+import (
+	"math"
+	"reflect"
+	"strings"
+	"testing"
+
+	"fyne.io/fyne/v2/test"
+
+	"stave/canvas"
+	"stave/fem"
+	"stave/fem/analysis"
+	"stave/storage"
+)
+
+// Working with load cases in the window: a model without cases gets a
+// second case (its loads become the case "loads"), a load placed goes into
+// the case edited, the other case's loads leave the drawing, undo returns
+// across the change of cases, the combinations table takes factors, and
+// the envelope is solved and read at the mouse with its governing
+// combinations.
+func TestCasesInTheWindow(t *testing.T) {
+	w, q := newTestWindow(t, demoProject(t))
+	solved(t, w, q)
+	own := w.Model()
+	if err := w.addCaseNamed("imposed"); err != nil {
+		t.Fatal(err)
+	}
+	m := w.Model()
+	if len(m.Cases) != 2 || m.Cases[0].Name != "loads" || !reflect.DeepEqual(m.Cases[0].PointLoads, own.PointLoads) || !m.Cases[0].SelfWeight || len(m.PointLoads) != 0 {
+		t.Fatalf("cases after adding one: %+v", m.Cases)
+	}
+	if w.editCase != 1 || len(w.project.Model.PointLoads) != 0 || len(w.project.Model.DistributedLoad) != 0 {
+		t.Fatalf("editing case %d with %d loads shown, want the new, empty case", w.editCase, len(w.project.Model.PointLoads))
+	}
+	// The new case is empty: the model is kept, and the solver says what to do.
+	finished(t, w, q)
+	if w.result.Err == nil || !strings.Contains(w.result.Err.Error(), "is empty") {
+		t.Errorf("an empty case solved: %v", w.result.Err)
+	}
+	// A point load placed now belongs to the new case.
+	w.setTool(toolForce)
+	w.place(2.0)
+	m = w.Model()
+	if len(m.Cases[1].PointLoads) != 1 || len(m.Cases[0].PointLoads) != len(own.PointLoads) {
+		t.Fatalf("the point load went to %+v", m.Cases)
+	}
+	solved(t, w, q)
+	// The drawing shows the edited case's loads only.
+	loads := 0
+	for _, h := range w.draw.scene.Handles {
+		if h.Ref.Kind == canvas.PointLoad {
+			loads++
+		}
+	}
+	if loads != 1 {
+		t.Errorf("%d point loads drawn, want the edited case's one", loads)
+	}
+	// Combinations from the table, one cell refused with its place.
+	tab := newCombinationTable(w.Model())
+	tab.addTemplates()
+	tab.rows[0].factors[1].SetText("1,5")
+	if _, err := tab.combinations(); err == nil || !strings.Contains(err.Error(), "row 1, imposed") {
+		t.Errorf("a bad factor: %v", err)
+	}
+	tab.rows[0].factors[1].SetText("1.5")
+	combos, err := tab.combinations()
+	if err != nil || len(combos) != 2 || combos[0].Factors[0].Factor != 1.35 || !strings.Contains(combos[0].Label, "typical") {
+		t.Fatalf("combinations %+v, %v", combos, err)
+	}
+	if err := w.changeCases("edit the combinations", w.editCase, func(m *fem.Model) error { m.Combinations = combos; return nil }); err != nil {
+		t.Fatal(err)
+	}
+	solved(t, w, q)
+	c := w.result.Cases
+	if c == nil || c.Show.Kind != analysis.ShowEnvelope || len(c.Combinations) != 2 {
+		t.Fatalf("the analysis shows %+v", c)
+	}
+	// The readout at the mouse names the governing combinations.
+	w.draw.hovering, w.draw.hoverX = true, 2.0
+	w.hoverChanged()
+	if txt := w.ui.readout.at.Text; !strings.Contains(txt, "envelope of 2 combinations") {
+		t.Errorf("readout heading %q", txt)
+	}
+	row := w.ui.readout.rows[fem.QBendingMoment]
+	if !strings.Contains(row[columnFE], "…") || !strings.Contains(row[columnExact], "…") || !strings.Contains(row[columnExact], "strength") {
+		t.Errorf("readout of M: %q", row)
+	}
+	// The checks name their governing combination.
+	named := false
+	for _, f := range w.checks {
+		named = named || strings.Contains(f.Name, "(governing: ")
+	}
+	if !named {
+		t.Error("no check names its governing combination")
+	}
+	// Showing one case, then undoing everything back to the model without cases.
+	w.setShow(analysis.Show{Kind: analysis.ShowCase, Index: 1})
+	sol := solved(t, w, q)
+	if got := sol.Equilibrium.Applied[fem.Transverse]; math.Abs(got-w.Model().Cases[1].PointLoads[0].Transverse) > 1e-9 {
+		t.Errorf("case imposed shows a transverse load of %g N", got)
+	}
+	for range 3 {
+		w.undo()
+	}
+	if !reflect.DeepEqual(w.Model(), own) || w.editCase != 0 {
+		t.Errorf("undo gave %+v, editing %d", w.Model().Cases, w.editCase)
+	}
+}
+
+// The cases panel lists the cases and what can be shown, and switching the
+// case edited swaps the loads drawn without changing the model.
+func TestCasesPanel(t *testing.T) {
+	p, err := storage.Load("../testdata/two_span_cases.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	w, q := newTestWindow(t, p)
+	solved(t, w, q)
+	c := w.ui.cases
+	if got := c.caseSelect.Options; !reflect.DeepEqual(got, []string{"both spans", "first span", "imposed"}) {
+		t.Errorf("cases listed %q", got)
+	}
+	if len(c.showSelect.Options) != 1+3+3 || c.showSelect.Selected != "envelope" {
+		t.Errorf("show choices %q, selected %q", c.showSelect.Options, c.showSelect.Selected)
+	}
+	before := w.Model()
+	c.caseSelect.SetSelectedIndex(1)
+	if w.editCase != 1 || !reflect.DeepEqual(w.Model(), before) || w.dirty() {
+		t.Errorf("editing %d; model kept %v; unsaved %v", w.editCase, reflect.DeepEqual(w.Model(), before), w.dirty())
+	}
+	if pts := w.project.Model.DistributedLoad; len(pts) != 1 || pts[0].Points[1].X != 4 {
+		t.Errorf("loads drawn for the first-span case: %+v", pts)
+	}
+	test.Tap(c.bySpan)
+	if !w.Model().Cases[1].BySpan {
+		t.Error("placed by span was not set on the case edited")
+	}
+	c.showSelect.SetSelected("combination: first")
+	if w.show != (analysis.Show{Kind: analysis.ShowCombination, Index: 1}) {
+		t.Errorf("show %+v", w.show)
+	}
+}

@@ -1,0 +1,62 @@
+package canvas
+
+import (
+	"strings"
+	"testing"
+
+	"stave/fem"
+	"stave/storage"
+)
+
+// The envelope is drawn in the strips: an upper and a lower curve of the
+// diagram's colour, and the largest and smallest values labelled with the
+// combination that governs each (two spans: the largest sagging moment
+// with the first span alone loaded, the moment over the middle support
+// with both).
+func TestEnvelopeDrawsBothCurvesAndNamesTheCombination(t *testing.T) {
+	w := fem.DistributedLoad{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 8, Intensity: -10e3}}}
+	first := fem.DistributedLoad{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 4, Intensity: -10e3}}}
+	m := &fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 8, Section: fem.Section{Area: 4e-3, SecondMoment: 8e-6, FibreDistance: 0.1}, Material: fem.Material{Elastic: 2e11}}},
+		Supports: []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}, {X: 8, Kind: fem.Roller}},
+		Cases:    []fem.LoadCase{{Name: "both spans", DistributedLoad: []fem.DistributedLoad{w}}, {Name: "first span", DistributedLoad: []fem.DistributedLoad{first}}},
+		Combinations: []fem.Combination{
+			{Name: "both", Factors: []fem.CaseFactor{{Case: 0, Factor: 1}}},
+			{Name: "first", Factors: []fem.CaseFactor{{Case: 1, Factor: 1}}},
+		},
+		Mesh: fem.MeshSettings{Elements: 32},
+	}
+	p, err := fem.Prepare(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	cs, err := p.SolveCombinations(p.Mesh())
+	if err != nil {
+		t.Fatal(err)
+	}
+	sol, _ := cs.Solution(0)
+	in := Input{Model: m, Solution: sol, Overlays: storage.Overlays{BendingMoment: true},
+		Envelope: &Envelope{Solutions: cs, Result: cs.Envelope(), Names: []string{"both", "first"}}}
+	v := NewView(1000, 600)
+	v.Fit(m)
+	s := Build(in, v)
+	var labels []string
+	curves := 0
+	for _, it := range s.Items {
+		if it.Text != "" {
+			labels = append(labels, it.Text)
+		}
+		if it.Kind == Polyline && it.StrokeWidth == 1.8 && len(it.Points) > 50 {
+			curves++
+		}
+	}
+	all := strings.Join(labels, " | ")
+	for _, want := range []string{"at 4.000 m, both", "at 1.750 m, first", "envelope of the combinations"} {
+		if !strings.Contains(all, want) {
+			t.Errorf("no label with %q among %s", want, all)
+		}
+	}
+	if curves != 2 {
+		t.Errorf("%d curves drawn in the strip, want the upper and the lower", curves)
+	}
+}

@@ -1,0 +1,398 @@
+package batch
+
+import (
+	"bytes"
+	"context"
+	"errors"
+	"fmt"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"sync/atomic"
+	"testing"
+
+	"stave/canvas/report"
+	"stave/fem"
+	"stave/fem/check"
+	"stave/storage"
+)
+
+// models are the reference models every command is tested on.
+func models(t *testing.T) []string {
+	t.Helper()
+	paths, err := Paths([]string{"../../../testdata"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(paths) < 8 {
+		t.Fatalf("testdata holds %d models, want at least 8", len(paths))
+	}
+	return paths
+}
+
+// badFiles writes files that cannot be checked into a new folder and
+// returns their paths: text that is not JSON, an empty file, a member that
+// can slide along its axis, and a file that does not exist.
+func badFiles(t *testing.T) []string {
+	t.Helper()
+	dir := t.TempDir()
+	p, err := storage.Load("../../../testdata/simply_supported_uniform.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	p.Model.Supports = []fem.Support{{X: 0, Kind: fem.Roller}, {X: 4, Kind: fem.Roller}}
+	p.Notes.Member = "L-7"
+	mechanism, err := storage.Marshal(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	files := map[string][]byte{"not_json.json": []byte("this is not JSON\n"), "empty.json": nil, "mechanism.json": mechanism}
+	var out []string
+	for _, name := range []string{"not_json.json", "empty.json", "mechanism.json"} {
+		path := filepath.Join(dir, name)
+		if err := os.WriteFile(path, files[name], 0o644); err != nil {
+			t.Fatal(err)
+		}
+		out = append(out, path)
+	}
+	return append(out, filepath.Join(dir, "missing.json"))
+}
+
+// runAll runs the batch and returns its lines and summary.
+func runAll(t *testing.T, names []string, opts Options) ([]Member, Summary) {
+	t.Helper()
+	var lines []Member
+	sum, err := Run(context.Background(), names, opts, func(m Member) error {
+		lines = append(lines, m)
+		return nil
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return lines, sum
+}
+
+// Deflections of two handbook cases, as span/n.
+func TestLineMatchesHandbookDeflections(t *testing.T) {
+	// Simply supported, uniform load q over L: largest deflection
+	// 5qL⁴/(384EI); cantilever with a tip force P: P·L³/(3EI). Source: beam
+	// deflection tables, Mechanics of Materials (Gere & Goodno), appendix
+	// D, from memory. Both files: L = 4 m, E = 200 GPa, I = 8e-6 m⁴,
+	// q = 10 kN/m, P = 10 kN; limits span/360 and length/180 (common practice).
+	const L, E, I, q, P = 4.0, 200e9, 8e-6, 10e3, 10e3
+	for _, c := range []struct {
+		file      string
+		w, limitN float64
+	}{
+		{"simply_supported_uniform.json", 5 * q * L * L * L * L / (384 * E * I), 360},
+		{"cantilever_tip_load.json", P * L * L * L / (3 * E * I), 180},
+	} {
+		t.Run(c.file, func(t *testing.T) {
+			lines, _ := runAll(t, []string{"../../../testdata/" + c.file}, Options{})
+			m := lines[0]
+			d := m.Deflection
+			if d == nil {
+				t.Fatalf("no deflection in the line: %+v", m)
+			}
+			near(t, "deflection", d.Deflection, c.w, 1e-9)
+			near(t, "span", d.Span, L, 1e-12)
+			near(t, "span ratio n", float64(d.Ratio), L/c.w, 1e-9)
+			near(t, "limit ratio", d.LimitRatio, c.limitN, 1e-12)
+			near(t, "utilisation", d.Utilisation, c.w/(L/c.limitN), 1e-9)
+			// No allowable stress is given, so the deflection governs, and fails.
+			if m.Governing == nil || *m.Governing != d.Check || m.Status != Failed {
+				t.Errorf("governing %+v, status %v: want the deflection check, failed", m.Governing, m.Status)
+			}
+		})
+	}
+}
+
+func near(t *testing.T, what string, got, want, rel float64) {
+	t.Helper()
+	if math.Abs(got-want) > rel*math.Abs(want) {
+		t.Errorf("%s = %.12g, want %.12g", what, got, want)
+	}
+}
+
+// Every line says what the single-file analysis of its member says: the
+// design check of largest value over limit governs, the deflection check of
+// largest value over limit is reported, any failed check fails the member.
+func TestLinesAgreeWithSingleFileAnalysis(t *testing.T) {
+	names := models(t)
+	dir := t.TempDir()
+	names = append(names, writeSchedule(t, dir, 12)...)
+	lines, _ := runAll(t, names, Options{})
+	for i, name := range names {
+		p, err := storage.Load(name)
+		if err != nil {
+			t.Fatal(err)
+		}
+		src, err := report.Analyse(context.Background(), p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var governing, deflection *Check
+		failed := false
+		for _, r := range src.Analysis.Checks {
+			failed = failed || r.Status == check.Fail
+			if r.Kind != check.Design || r.Limit <= 0 {
+				continue
+			}
+			c := &Check{r.Name, r.Value / r.Limit}
+			if governing == nil || c.Utilisation > governing.Utilisation {
+				governing = c
+			}
+			if strings.HasPrefix(r.Name, "Deflection,") && (deflection == nil || c.Utilisation > deflection.Utilisation) {
+				deflection = c
+			}
+		}
+		m := lines[i]
+		if m.File != name || m.Mark != p.Notes.Member {
+			t.Errorf("line %d is %s (%s), want %s (%s)", i, m.File, m.Mark, name, p.Notes.Member)
+		}
+		if !sameCheck(m.Governing, governing) {
+			t.Errorf("%s: governing %+v, the analysis gives %+v", name, m.Governing, governing)
+		}
+		var got *Check
+		if m.Deflection != nil {
+			got = &m.Deflection.Check
+		}
+		if !sameCheck(got, deflection) {
+			t.Errorf("%s: deflection %+v, the analysis gives %+v", name, got, deflection)
+		}
+		if (m.Status == Failed) != failed {
+			t.Errorf("%s: status %v, but a check failed: %v", name, m.Status, failed)
+		}
+	}
+}
+
+func sameCheck(a, b *Check) bool { return (a == nil) == (b == nil) && (a == nil || *a == *b) }
+
+// A file that cannot be loaded or solved is refused in its line, and the
+// members after it are checked as usual.
+func TestRunGoesPastBadFiles(t *testing.T) {
+	good := models(t)
+	bad := badFiles(t)
+	var names []string
+	for i := range max(len(good), len(bad)) {
+		if i < len(bad) {
+			names = append(names, bad[i])
+		}
+		if i < len(good) {
+			names = append(names, good[i])
+		}
+	}
+	lines, sum := runAll(t, names, Options{Workers: 2})
+	if len(lines) != len(names) {
+		t.Fatalf("%d lines for %d files", len(lines), len(names))
+	}
+	wantProblem := map[string]string{
+		"not_json.json":  "not valid JSON",
+		"empty.json":     "empty",
+		"mechanism.json": "free motion",
+		"missing.json":   "no such file",
+	}
+	for i, m := range lines {
+		want, isBad := wantProblem[filepath.Base(names[i])]
+		switch {
+		case isBad && (m.Status != Refused || !strings.Contains(m.Problem, want)):
+			t.Errorf("%s: status %v, problem %q: want refused, saying %q", names[i], m.Status, m.Problem, want)
+		case isBad && strings.Contains(m.Problem, "\n"):
+			t.Errorf("%s: the problem spans lines: %q", names[i], m.Problem)
+		case !isBad && (m.Status == Refused || m.Governing == nil):
+			t.Errorf("%s: status %v, governing %+v: want it checked", names[i], m.Status, m.Governing)
+		}
+	}
+	if lines[2].Mark != "" || lines[4].Mark != "L-7" {
+		t.Errorf("marks of the refused lines: %q, %q; want none for an empty file and L-7 for the mechanism", lines[2].Mark, lines[4].Mark)
+	}
+	if sum.Refused != len(bad) || sum.Members != len(names) || sum.Worst != Refused {
+		t.Errorf("summary %+v: want %d refused of %d, worst refused", sum, len(bad), len(names))
+	}
+}
+
+// The output is the same byte for byte at any number of workers, in the
+// order of the files.
+func TestOutputIsTheSameAtAnyWorkerCount(t *testing.T) {
+	var names []string
+	for range 3 {
+		names = append(names, models(t)...)
+		names = append(names, badFiles(t)...)
+	}
+	names = append(names, writeSchedule(t, t.TempDir(), 30)...)
+	first := map[string][]byte{}
+	for _, workers := range []int{1, 2, 4, 7} {
+		for _, format := range []string{"json", "csv", "text"} {
+			var out bytes.Buffer
+			w, err := NewWriter(format, &out)
+			if err != nil {
+				t.Fatal(err)
+			}
+			sum, err := Run(context.Background(), names, Options{Workers: workers}, w.Member)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if err := w.Close(sum); err != nil {
+				t.Fatal(err)
+			}
+			if first[format] == nil {
+				first[format] = out.Bytes()
+			} else if !bytes.Equal(out.Bytes(), first[format]) {
+				t.Errorf("%d workers write other %s than 1 worker", workers, format)
+			}
+		}
+	}
+}
+
+// At most a window of lines exists at once: member i is loaded only once
+// all but the window before it have been handed over, however slow the
+// first member is.
+func TestRunWaitsInABoundedWindow(t *testing.T) {
+	const workers, n = 2, 200
+	window := workers * linesPerWorker
+	names := make([]string, n)
+	for i := range names {
+		names[i] = fmt.Sprint(i)
+	}
+	var started, emitted atomic.Int64
+	full := make(chan struct{}) // closed when the window is full
+	demo, err := storage.Demo()
+	if err != nil {
+		t.Fatal(err)
+	}
+	data, err := storage.Marshal(demo)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var early atomic.Int64 // loads started before their window opened
+	load := func(name string) (*storage.Project, error) {
+		var i int64
+		fmt.Sscan(name, &i)
+		if started.Add(1) == int64(window) {
+			close(full)
+		}
+		if i == 0 {
+			<-full // the first member is slow: the others fill the window
+		}
+		if emitted.Load() < i+1-int64(window) {
+			early.Add(1)
+		}
+		return storage.Unmarshal(data)
+	}
+	_, err = Run(context.Background(), names, Options{Workers: workers, Load: load}, func(Member) error {
+		emitted.Add(1)
+		return nil
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if early.Load() != 0 || emitted.Load() != n {
+		t.Errorf("%d of %d members started before the line %d before them was handed over (%d handed over)", early.Load(), n, window, emitted.Load())
+	}
+}
+
+// A model that makes Stave fail is refused in its line; the batch goes on.
+func TestRunReportsAnInternalFailureInItsLine(t *testing.T) {
+	load := func(name string) (*storage.Project, error) {
+		if name == "bad" {
+			panic("index out of range")
+		}
+		return storage.Demo()
+	}
+	lines, sum := runAll(t, []string{"a", "bad", "c"}, Options{Load: load})
+	if lines[1].Status != Refused || !strings.Contains(lines[1].Problem, "internal error") || sum.OK != 2 {
+		t.Errorf("lines %+v, summary %+v: want the middle one refused as an internal error, the others ok", lines, sum)
+	}
+}
+
+// A writer's error stops the batch and is returned; so is a cancellation.
+func TestRunStops(t *testing.T) {
+	names := make([]string, 100)
+	for i := range names {
+		names[i] = "../../../testdata/demo.json"
+	}
+	full := errors.New("disk full")
+	emitted := 0
+	_, err := Run(context.Background(), names, Options{}, func(Member) error {
+		if emitted++; emitted == 3 {
+			return full
+		}
+		return nil
+	})
+	if !errors.Is(err, full) || emitted != 3 {
+		t.Errorf("error %v after %d lines: want the writer's error after 3", err, emitted)
+	}
+	ctx, cancel := context.WithCancel(context.Background())
+	emitted = 0
+	_, err = Run(ctx, names, Options{}, func(Member) error {
+		if emitted++; emitted == 3 {
+			cancel()
+		}
+		return nil
+	})
+	if !errors.Is(err, context.Canceled) || emitted != 3 {
+		t.Errorf("error %v after %d lines: want the cancellation after 3", err, emitted)
+	}
+}
+
+func TestStatusOfFindings(t *testing.T) {
+	lines, _ := runAll(t, models(t), Options{})
+	want := map[string]Status{
+		"demo.json":                     OK,
+		"hanging_rod_self_weight.json":  Caution, // the finite element error is above 1 %
+		"simply_supported_uniform.json": Failed,
+	}
+	for _, m := range lines {
+		if s, ok := want[filepath.Base(m.File)]; ok && m.Status != s {
+			t.Errorf("%s: status %v, want %v", m.File, m.Status, s)
+		}
+	}
+}
+
+func TestPaths(t *testing.T) {
+	dir := t.TempDir()
+	for _, name := range []string{"b.json", "a.json", "C.JSON", ".hidden.json", "notes.txt", "sub/d.json"} {
+		path := filepath.Join(dir, name)
+		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(path, nil, 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	empty := t.TempDir()
+	for _, c := range []struct {
+		name string
+		args []string
+		want []string
+		err  string
+	}{
+		{"a folder: its .json files by name, no hidden ones, no subfolders", []string{dir},
+			[]string{"C.JSON", "a.json", "b.json"}, ""},
+		{"files as given, missing ones too", []string{"x/missing.json", filepath.Join(dir, "notes.txt")},
+			[]string{"x/missing.json", filepath.Join(dir, "notes.txt")}, ""},
+		{"a folder with no model", []string{dir, empty}, nil, "holds no .json model file"},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			got, err := Paths(c.args)
+			if c.err != "" {
+				if err == nil || !strings.Contains(err.Error(), c.err) {
+					t.Errorf("error %v, want one saying %q", err, c.err)
+				}
+				return
+			}
+			if err != nil {
+				t.Fatal(err)
+			}
+			for i := range got {
+				if len(c.args) == 1 {
+					got[i] = filepath.Base(got[i])
+				}
+			}
+			if fmt.Sprint(got) != fmt.Sprint(c.want) {
+				t.Errorf("got %q, want %q", got, c.want)
+			}
+		})
+	}
+}

@@ -1,0 +1,211 @@
+package batch
+
+import (
+	"bufio"
+	"encoding/csv"
+	"encoding/json"
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+	"text/tabwriter"
+
+	"stave/canvas/report"
+	"stave/fem"
+)
+
+// Writer writes a batch's lines as Run hands them over, then its summary.
+type Writer interface {
+	Member(m Member) error
+	Close(s Summary) error
+}
+
+// NewWriter is the writer of format "text", "json" or "csv" to w.
+func NewWriter(format string, w io.Writer) (Writer, error) {
+	switch format {
+	case "text":
+		return &textWriter{w: w}, nil
+	case "json":
+		return &jsonWriter{w: bufio.NewWriter(w)}, nil
+	case "csv":
+		return &csvWriter{out: w}, nil
+	}
+	return nil, fmt.Errorf("no batch output %q: choose text, json or csv", format)
+}
+
+// ratioText is n of span/n, to three figures below 100.
+func ratioText(n float64) string {
+	if n >= 100 {
+		return strconv.FormatFloat(n, 'f', 0, 64)
+	}
+	return strconv.FormatFloat(n, 'g', 3, 64)
+}
+
+// deflectionText is a deflection check as "L/250 (limit L/360)".
+func deflectionText(d *Deflection) string {
+	if math.IsInf(float64(d.Ratio), 0) {
+		return fmt.Sprintf("none (limit L/%s)", ratioText(d.LimitRatio))
+	}
+	return fmt.Sprintf("L/%s (limit L/%s)", ratioText(float64(d.Ratio)), ratioText(d.LimitRatio))
+}
+
+// warningText is the warnings in one cell: why a refused member has no
+// results, or each warning's severity and check.
+func warningText(m Member) string {
+	if m.Status == Refused {
+		return m.Problem
+	}
+	if len(m.Warnings) == 0 {
+		return ""
+	}
+	parts := make([]string, len(m.Warnings))
+	for i, w := range m.Warnings {
+		parts[i] = w.Severity + " " + w.Check
+	}
+	return strings.Join(parts, "; ")
+}
+
+// textWriter aligns its columns, so it keeps the rows (a short line of
+// text per member) until Close.
+type textWriter struct {
+	w    io.Writer
+	rows []string
+}
+
+func (t *textWriter) Member(m Member) error {
+	mark, governing, utilisation, deflection := dash(m.Mark), "-", "-", "-"
+	if g := m.Governing; g != nil {
+		governing, utilisation = g.Name, fmt.Sprintf("%.2f", g.Utilisation)
+	}
+	if d := m.Deflection; d != nil {
+		deflection = deflectionText(d)
+	}
+	t.rows = append(t.rows, strings.Join([]string{m.File, mark, m.Status.String(), governing, utilisation, deflection, dash(warningText(m))}, "\t"))
+	return nil
+}
+
+// dash stands for an empty cell.
+func dash(s string) string {
+	if s == "" {
+		return "-"
+	}
+	return s
+}
+
+func (t *textWriter) Close(s Summary) error {
+	bw := bufio.NewWriter(t.w)
+	fmt.Fprintf(bw, "Stave %s: check of %d members\n\n", report.Version, s.Members)
+	tw := tabwriter.NewWriter(bw, 2, 4, 2, ' ', 0)
+	fmt.Fprintln(tw, "file\tmember\tstatus\tgoverning check\tutilisation\tdeflection\twarnings")
+	for _, r := range t.rows {
+		fmt.Fprintln(tw, r)
+	}
+	tw.Flush()
+	fmt.Fprintf(bw, "\n%d members: %d ok, %d caution, %d failed a check, %d refused\n", s.Members, s.OK, s.Caution, s.Failed, s.Refused)
+	if h := s.Highest; h != nil {
+		fmt.Fprintf(bw, "Highest utilisation: %.2f, %s, in %s\n", h.Utilisation, h.Name, h.Who)
+	}
+	if d := s.Deflection; d != nil {
+		fmt.Fprintf(bw, "Largest deflection for its limit: %s, %s, in %s\n", deflectionText(&d.Deflection), d.Name, d.Who)
+	}
+	fmt.Fprintln(bw, "Utilisation is the checked value over its limit (1 at the limit); L is the span or overhang checked.")
+	fmt.Fprintln(bw, "Caution:", fem.Caution)
+	return bw.Flush()
+}
+
+// jsonWriter streams one object: the members as they come, then the
+// summary, as report.WriteJSON would indent the whole.
+type jsonWriter struct {
+	w *bufio.Writer
+	n int
+}
+
+// jsonUnits says the units of the JSON output.
+const jsonUnits = "SI: lengths (deflection_m, span_m) in m; utilisations and span ratios are pure numbers"
+
+func (j *jsonWriter) Member(m Member) error {
+	if m.Warnings == nil {
+		m.Warnings = []Warning{} // [] rather than null
+	}
+	b, err := json.MarshalIndent(m, "    ", "  ")
+	if err != nil {
+		return err
+	}
+	if j.n == 0 {
+		j.w.WriteString("{\n  \"members\": [\n    ")
+	} else {
+		j.w.WriteString(",\n    ")
+	}
+	j.n++
+	_, err = j.w.Write(b)
+	return err
+}
+
+func (j *jsonWriter) Close(s Summary) error {
+	if j.n == 0 {
+		j.w.WriteString("{\n  \"members\": [")
+	} else {
+		j.w.WriteString("\n  ")
+	}
+	tail, err := json.MarshalIndent(struct {
+		Summary Summary `json:"summary"`
+		Units   string  `json:"units"`
+		Caution string  `json:"caution"`
+	}{s, jsonUnits, fem.Caution}, "", "  ")
+	if err != nil {
+		return err
+	}
+	j.w.WriteString("],\n")
+	j.w.Write(tail[2:]) // without its opening "{\n"
+	j.w.WriteString("\n")
+	return j.w.Flush()
+}
+
+// csvWriter streams a header and one row per member, after a comment line
+// with the caution (read with csv.Reader.Comment = '#'), as the results
+// table does.
+type csvWriter struct {
+	out io.Writer
+	w   *csv.Writer
+}
+
+var csvHeader = []string{"file", "member", "status", "governing check", "utilisation",
+	"deflection check", "deflection [m]", "span [m]", "span ratio n (span/n)", "limit ratio n", "warnings"}
+
+func (c *csvWriter) start() error {
+	if c.w != nil {
+		return nil
+	}
+	if _, err := fmt.Fprintln(c.out, "# Stave batch check. "+fem.Caution); err != nil {
+		return err
+	}
+	c.w = csv.NewWriter(c.out)
+	return c.w.Write(csvHeader)
+}
+
+func (c *csvWriter) Member(m Member) error {
+	if err := c.start(); err != nil {
+		return err
+	}
+	num := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
+	row := []string{m.File, m.Mark, m.Status.String(), "", "", "", "", "", "", "", warningText(m)}
+	if g := m.Governing; g != nil {
+		row[3], row[4] = g.Name, num(g.Utilisation)
+	}
+	if d := m.Deflection; d != nil {
+		row[5], row[6], row[7], row[9] = d.Name, num(d.Deflection), num(d.Span), num(d.LimitRatio)
+		if !math.IsInf(float64(d.Ratio), 0) {
+			row[8] = num(float64(d.Ratio))
+		}
+	}
+	return c.w.Write(row)
+}
+
+func (c *csvWriter) Close(Summary) error {
+	if err := c.start(); err != nil {
+		return err
+	}
+	c.w.Flush()
+	return c.w.Error()
+}

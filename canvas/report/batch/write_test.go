@@ -1,0 +1,174 @@
+package batch
+
+import (
+	"bytes"
+	"context"
+	"encoding/csv"
+	"encoding/json"
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+	"testing"
+	"unicode/utf8"
+
+	"stave/canvas/report"
+	"stave/fem"
+)
+
+// write runs the batch through the writer of format and returns the output
+// with the lines and summary the writer was given.
+func write(t *testing.T, format string, names []string) (string, []Member, Summary) {
+	t.Helper()
+	var out bytes.Buffer
+	w, err := NewWriter(format, &out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var lines []Member
+	sum, err := Run(context.Background(), names, Options{}, func(m Member) error {
+		lines = append(lines, m)
+		return w.Member(m)
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := w.Close(sum); err != nil {
+		t.Fatal(err)
+	}
+	return out.String(), lines, sum
+}
+
+// The streamed JSON is the document report.WriteJSON writes of the whole.
+func TestJSONStreamsOneDocument(t *testing.T) {
+	names := append(models(t), badFiles(t)...)
+	got, lines, sum := write(t, "json", names)
+	for i := range lines {
+		if lines[i].Warnings == nil {
+			lines[i].Warnings = []Warning{}
+		}
+	}
+	var want bytes.Buffer
+	err := report.WriteJSON(&want, struct {
+		Members []Member `json:"members"`
+		Summary Summary  `json:"summary"`
+		Units   string   `json:"units"`
+		Caution string   `json:"caution"`
+	}{lines, sum, jsonUnits, fem.Caution})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got != want.String() {
+		t.Errorf("streamed JSON differs from the whole document:\n%s\nwant:\n%s", got, want.String())
+	}
+	var doc struct {
+		Members []struct {
+			Deflection *struct {
+				Ratio *float64 `json:"span_ratio"`
+			} `json:"deflection"`
+		} `json:"members"`
+		Summary struct{ Members int } `json:"summary"`
+	}
+	if err := json.Unmarshal([]byte(got), &doc); err != nil {
+		t.Fatal(err)
+	}
+	// stepped_bar.json is a bar under axial load: nothing deflects.
+	for i, m := range doc.Members {
+		if strings.HasSuffix(names[i], "stepped_bar.json") && (m.Deflection == nil || m.Deflection.Ratio != nil) {
+			t.Errorf("%s: want a deflection check with span_ratio null, got %+v", names[i], m.Deflection)
+		}
+	}
+	if len(doc.Members) != len(names) || doc.Summary.Members != len(names) {
+		t.Errorf("%d members, summary of %d, for %d files", len(doc.Members), doc.Summary.Members, len(names))
+	}
+}
+
+func TestJSONOfNoMember(t *testing.T) {
+	var out bytes.Buffer
+	w, _ := NewWriter("json", &out)
+	if err := w.Close(Summary{}); err != nil {
+		t.Fatal(err)
+	}
+	var doc struct{ Members []Member }
+	if err := json.Unmarshal(out.Bytes(), &doc); err != nil || doc.Members == nil {
+		t.Errorf("members %v, error %v, in:\n%s", doc.Members, err, out.String())
+	}
+}
+
+// The CSV is a comment line with the caution, a header and a row per member.
+func TestCSVHasARowPerMember(t *testing.T) {
+	names := append(models(t), badFiles(t)...)
+	got, lines, _ := write(t, "csv", names)
+	if !strings.HasPrefix(got, "# ") || !strings.Contains(strings.SplitN(got, "\n", 2)[0], fem.Caution) {
+		t.Errorf("the first line is not a comment with the caution: %q", strings.SplitN(got, "\n", 2)[0])
+	}
+	r := csv.NewReader(strings.NewReader(got))
+	r.Comment = '#'
+	rows, err := r.ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(rows) != len(names)+1 || fmt.Sprint(rows[0]) != fmt.Sprint(csvHeader) {
+		t.Fatalf("%d rows for %d members, header %q", len(rows), len(names), rows[0])
+	}
+	for i, m := range lines {
+		row := rows[i+1]
+		if row[0] != names[i] || row[2] != m.Status.String() {
+			t.Errorf("row %d: %q, want %s with status %v", i+1, row[:3], names[i], m.Status)
+		}
+		if m.Status == Refused && row[10] != m.Problem {
+			t.Errorf("row %d: warnings %q, want the problem %q", i+1, row[10], m.Problem)
+		}
+		if g := m.Governing; g != nil {
+			if u, err := strconv.ParseFloat(row[4], 64); err != nil || u != g.Utilisation {
+				t.Errorf("row %d: utilisation %q, want %v", i+1, row[4], g.Utilisation)
+			}
+		}
+	}
+}
+
+// The text aligns every cell under its heading and ends with the summary
+// and the caution.
+func TestTextAlignsItsColumns(t *testing.T) {
+	names := append(models(t), badFiles(t)...)
+	got, _, sum := write(t, "text", names)
+	text := strings.Split(got, "\n")
+	header := text[2]
+	columns := []string{"member", "status", "governing check", "utilisation", "deflection", "warnings"}
+	for i, line := range text[3 : 3+len(names)] {
+		if !strings.HasPrefix(line, names[i]+" ") {
+			t.Errorf("line %d does not start with its file %s: %q", i, names[i], line)
+		}
+		if strings.HasSuffix(line, " ") {
+			t.Errorf("line %d ends in a space: %q", i, line)
+		}
+		for _, c := range columns {
+			at := utf8.RuneCountInString(header[:strings.Index(header, c)])
+			runes := []rune(line)
+			if at >= len(runes) || runes[at-1] != ' ' || runes[at] == ' ' {
+				t.Errorf("line %d: no cell starts under %q: %q", i, c, line)
+			}
+		}
+	}
+	counts := fmt.Sprintf("%d members: %d ok, %d caution, %d failed a check, %d refused", sum.Members, sum.OK, sum.Caution, sum.Failed, sum.Refused)
+	if !strings.Contains(got, counts) || !strings.HasSuffix(got, "Caution: "+fem.Caution+"\n") {
+		t.Errorf("the text lacks %q or the caution at its end:\n%s", counts, got)
+	}
+}
+
+func TestDeflectionText(t *testing.T) {
+	for _, c := range []struct {
+		ratio, limit float64
+		want         string
+	}{
+		{192, 360, "L/192 (limit L/360)"},
+		{4015.5, 360, "L/4016 (limit L/360)"},
+		{33.333, 180, "L/33.3 (limit L/180)"},
+		{math.Inf(1), 180, "none (limit L/180)"},
+	} {
+		d := Deflection{Ratio: Ratio(c.ratio), LimitRatio: c.limit}
+		if got := deflectionText(&d); got != c.want {
+			t.Errorf("ratio %g, limit %g: %q, want %q", c.ratio, c.limit, got, c.want)
+		}
+	}
+}

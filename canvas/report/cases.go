@@ -1,0 +1,352 @@
+package report
+
+import (
+	"fmt"
+	"io"
+	"slices"
+	"stave/canvas"
+	"strings"
+	"text/tabwriter"
+
+	"stave/fem"
+	"stave/fem/analysis"
+	"stave/fem/units"
+)
+
+// CombinedCaution goes with every result combined from load cases: the
+// factors are the engineer's, not Stave's.
+const CombinedCaution = "Combined results use the factors given in the model; Stave builds in no code's factors. Use the factors your local code gives; a qualified engineer must review the combinations."
+
+// CasesJSON are the keys `stave solve --json` adds for a model with load
+// cases, beside the results of what it shows (docs/json.md, "Load cases,
+// combinations and envelope").
+type CasesJSON struct {
+	Shown string `json:"shown"`
+	// SummaryOf names the case or combination the summary beside these
+	// keys is of: the one shown, or the first combination for the envelope.
+	SummaryOf    string            `json:"summary_of"`
+	Cases        []CaseJSON        `json:"cases"`
+	Combinations []CombinationJSON `json:"combinations"`
+	Envelope     EnvelopeJSON      `json:"envelope"`
+}
+
+// CaseJSON is one load case and its results alone.
+type CaseJSON struct {
+	Name              string  `json:"name"`
+	SelfWeight        bool    `json:"self_weight"`
+	TemperatureChange float64 `json:"temperature_change"` // K
+	Settlements       bool    `json:"settlements"`
+	BySpan            bool    `json:"by_span"`
+	*Results
+}
+
+// CombinationJSON is one combination, its factors and its results with
+// every span loaded.
+type CombinationJSON struct {
+	Name    string       `json:"name"`
+	Kind    string       `json:"kind"`
+	Label   string       `json:"label,omitempty"`
+	Factors []FactorJSON `json:"factors"`
+	*Results
+}
+
+// FactorJSON is one case of a combination and its factor.
+type FactorJSON struct {
+	Case   string  `json:"case"`
+	Factor float64 `json:"factor"`
+}
+
+// EnvelopeJSON is the envelope over every combination and arrangement of
+// spans.
+type EnvelopeJSON struct {
+	Caution    string               `json:"caution"`
+	Spans      [][2]float64         `json:"spans"` // m, in order; loaded spans count from 1
+	Quantities []QuantityEnvelope   `json:"quantities"`
+	Reactions  []ReactionEnvelopeJS `json:"reactions"`
+}
+
+// QuantityEnvelope is one quantity's largest and smallest value.
+type QuantityEnvelope struct {
+	Quantity fem.Quantity  `json:"-"`
+	Name     string        `json:"quantity"` // as in the extremes, e.g. bending_moment
+	Unit     string        `json:"unit"`
+	Max      GoverningJSON `json:"max"`
+	Min      GoverningJSON `json:"min"`
+}
+
+// GoverningJSON is one extreme and what gives it.
+type GoverningJSON struct {
+	Value       float64 `json:"value"`
+	X           float64 `json:"x"` // m
+	Combination string  `json:"combination"`
+	// LoadedSpans are, for each case of the combination placed by span,
+	// the spans loaded in the worst arrangement (counted from 1); the
+	// others are unloaded.
+	LoadedSpans []LoadedSpansJSON `json:"loaded_spans,omitempty"`
+}
+
+// LoadedSpansJSON are the spans of one case loaded in an arrangement.
+type LoadedSpansJSON struct {
+	Case  string `json:"case"`
+	Spans []int  `json:"spans"`
+}
+
+// ReactionEnvelopeJS is one support's reaction envelope, per component.
+type ReactionEnvelopeJS struct {
+	Support int                      `json:"support"` // 1-based
+	Kind    string                   `json:"kind"`
+	X       float64                  `json:"x"`
+	Max     map[string]GoverningJSON `json:"max"` // "axial", "transverse", "moment"
+	Min     map[string]GoverningJSON `json:"min"`
+}
+
+var componentNames = [3]string{"axial", "transverse", "moment"}
+
+// CasesResults are the cases, combinations and envelope of a, which must
+// be complete and have Cases; nil for a model without cases.
+func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
+	c := a.Cases
+	if c == nil {
+		return nil, nil
+	}
+	if c.Envelope == nil {
+		return nil, fmt.Errorf("the combinations were not solved: %v", a.ExactErr)
+	}
+	m := &a.Model
+	out := &CasesJSON{Shown: c.Show.Title(m), SummaryOf: c.Show.Title(m)}
+	if c.Show.Kind == analysis.ShowEnvelope {
+		out.SummaryOf = analysis.Show{Kind: analysis.ShowCombination}.Title(m)
+	}
+	for k, lc := range m.Cases {
+		s, err := c.CaseSummary(k)
+		if err != nil {
+			return nil, fmt.Errorf("load case %q: %w", lc.Name, err)
+		}
+		out.Cases = append(out.Cases, CaseJSON{Name: lc.Name, SelfWeight: lc.SelfWeight, TemperatureChange: lc.TemperatureChange,
+			Settlements: lc.Settlements, BySpan: lc.BySpan, Results: resultsOf(s)})
+	}
+	for k, cb := range c.Combinations {
+		cj := CombinationJSON{Name: cb.Name, Kind: cb.Kind.String(), Label: cb.Label}
+		for _, f := range cb.Factors {
+			cj.Factors = append(cj.Factors, FactorJSON{m.LoadSetName(f.Case), f.Factor})
+		}
+		if k < len(c.Summaries) {
+			cj.Results = resultsOf(c.Summaries[k])
+		}
+		out.Combinations = append(out.Combinations, cj)
+	}
+	env := c.Envelope
+	out.Envelope = EnvelopeJSON{Caution: CombinedCaution, Spans: c.Solutions.Loads.Spans}
+	for _, q := range env.Quantities {
+		out.Envelope.Quantities = append(out.Envelope.Quantities, QuantityEnvelope{Quantity: q.Quantity, Name: jsonName(q.Quantity), Unit: q.Quantity.Info().SI,
+			Max: governingJSON(m, c, q.Max), Min: governingJSON(m, c, q.Min)})
+	}
+	for _, r := range env.Reactions {
+		rj := ReactionEnvelopeJS{Support: r.Support + 1, Kind: m.Supports[r.Support].Kind.String(), X: r.X,
+			Max: map[string]GoverningJSON{}, Min: map[string]GoverningJSON{}}
+		for d, name := range componentNames {
+			rj.Max[name], rj.Min[name] = governingJSON(m, c, r.Max[d]), governingJSON(m, c, r.Min[d])
+		}
+		out.Envelope.Reactions = append(out.Envelope.Reactions, rj)
+	}
+	return out, nil
+}
+
+func governingJSON(m *fem.Model, c *analysis.Cases, g fem.Governing) GoverningJSON {
+	out := GoverningJSON{Value: g.Value, X: g.X, Combination: c.Combinations[g.Combination].Name}
+	for _, s := range g.Loaded {
+		name := m.LoadSetName(s.Case)
+		i := slices.IndexFunc(out.LoadedSpans, func(l LoadedSpansJSON) bool { return l.Case == name })
+		if i < 0 {
+			out.LoadedSpans = append(out.LoadedSpans, LoadedSpansJSON{Case: name})
+			i = len(out.LoadedSpans) - 1
+		}
+		out.LoadedSpans[i].Spans = append(out.LoadedSpans[i].Spans, s.Span+1)
+	}
+	for _, cf := range c.Combinations[g.Combination].Factors {
+		// A case placed by span with no span loaded: say so.
+		if cf.Case < len(m.Cases) && m.Cases[cf.Case].BySpan && cf.Factor != 0 {
+			name := m.LoadSetName(cf.Case)
+			if !slices.ContainsFunc(out.LoadedSpans, func(l LoadedSpansJSON) bool { return l.Case == name }) {
+				out.LoadedSpans = append(out.LoadedSpans, LoadedSpansJSON{Case: name, Spans: []int{}})
+			}
+		}
+	}
+	return out
+}
+
+// Arrangement is g's loaded spans in words: "imposed on spans 1, 3"; ""
+// when its combination places nothing by span.
+func (g GoverningJSON) Arrangement() string {
+	var parts []string
+	for _, l := range g.LoadedSpans {
+		if len(l.Spans) == 0 {
+			parts = append(parts, l.Case+" on no span")
+			continue
+		}
+		s := make([]string, len(l.Spans))
+		for i, n := range l.Spans {
+			s[i] = fmt.Sprint(n)
+		}
+		word := "spans "
+		if len(s) == 1 {
+			word = "span "
+		}
+		parts = append(parts, l.Case+" on "+word+strings.Join(s, ", "))
+	}
+	return strings.Join(parts, "; ")
+}
+
+// FactorsText is a combination's factors in words: "1.35 × permanent + 1.5 × imposed".
+func FactorsText(c CombinationJSON) string {
+	parts := make([]string, len(c.Factors))
+	for i, f := range c.Factors {
+		parts[i] = fmt.Sprintf("%g × %s", f.Factor, f.Case)
+	}
+	return strings.Join(parts, " + ")
+}
+
+// WriteCasesText writes the cases, the combinations with their factors,
+// and the envelope with the governing combination of each extreme and
+// reaction, as text tables in units u.
+func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
+	pos := func(x float64) string { return u.Format(units.Position, x) }
+	fmt.Fprintf(w, "Stave %s: %s\n", Version, path)
+	tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', 0)
+	fmt.Fprintln(tw, "Load cases")
+	for _, c := range r.Cases {
+		var marks []string
+		if c.SelfWeight {
+			marks = append(marks, "self-weight")
+		}
+		if c.TemperatureChange != 0 {
+			marks = append(marks, "temperature "+u.Format(units.TemperatureChange, c.TemperatureChange))
+		}
+		if c.Settlements {
+			marks = append(marks, "settlements")
+		}
+		if c.BySpan {
+			marks = append(marks, "placed by span")
+		}
+		fmt.Fprintf(tw, "  %s\t%s\n", c.Name, strings.Join(marks, ", "))
+	}
+	fmt.Fprintln(tw, "\nCombinations (factors given in the model: typical values at most; use your local code's)")
+	for _, c := range r.Combinations {
+		kind := c.Kind
+		if c.Label != "" {
+			kind = c.Label
+		}
+		fmt.Fprintf(tw, "  %s\t%s\t%s\n", c.Name, kind, FactorsText(c))
+	}
+	tw.Flush()
+	fmt.Fprintf(tw, "\nEnvelope over every combination%s\n", spanWords(r.Envelope.Spans))
+	fmt.Fprintln(tw, "  quantity\tlargest\tat x\tgoverning\tsmallest\tat x\tgoverning")
+	for _, q := range r.Envelope.Quantities {
+		k := q.Quantity.Info().Unit
+		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\t%s\n", q.Quantity.Info().Name, u.Format(k, q.Max.Value), pos(q.Max.X), governingWords(q.Max),
+			u.Format(k, q.Min.Value), pos(q.Min.X), governingWords(q.Min))
+	}
+	tw.Flush()
+	fmt.Fprintln(tw, "\nReaction envelope (forces of the supports on the member)")
+	fmt.Fprintln(tw, "  support\tx\tcomponent\tlargest\tgoverning\tsmallest\tgoverning")
+	for _, re := range r.Envelope.Reactions {
+		for d, name := range componentNames {
+			k := units.Force
+			if d == 2 {
+				k = units.Moment
+			}
+			hi, lo := re.Max[name], re.Min[name]
+			if hi.Value == 0 && lo.Value == 0 {
+				continue
+			}
+			fmt.Fprintf(tw, "  %d %s\t%s\t%s\t%s\t%s\t%s\t%s\n", re.Support, re.Kind, pos(re.X), name, u.Format(k, hi.Value), governingWords(hi), u.Format(k, lo.Value), governingWords(lo))
+		}
+	}
+	tw.Flush()
+	fmt.Fprintln(w, "\nCaution:", fem.Caution)
+	fmt.Fprintln(w, CombinedCaution)
+}
+
+// spanWords says how many spans the envelope places loads on.
+func spanWords(spans [][2]float64) string {
+	if len(spans) < 2 {
+		return ""
+	}
+	return fmt.Sprintf(" and every arrangement of the %d spans for the cases placed by span", len(spans))
+}
+
+// governingWords names what gives an extreme: "ULS 1 (imposed on spans 1, 3)".
+func governingWords(g GoverningJSON) string {
+	if a := g.Arrangement(); a != "" {
+		return g.Combination + " (" + a + ")"
+	}
+	return g.Combination
+}
+
+// envelopeInput is the envelope the drawing shows for a, or nil when a
+// shows one solution.
+func envelopeInput(a *analysis.Analysis) *canvas.Envelope {
+	c := a.Cases
+	if c == nil || c.Show.Kind != analysis.ShowEnvelope {
+		return nil
+	}
+	names := make([]string, len(c.Combinations))
+	for k, cb := range c.Combinations {
+		names[k] = cb.Name
+	}
+	return &canvas.Envelope{Solutions: c.Solutions, Result: c.Envelope, Names: names}
+}
+
+// sheetCaseLines are the calculation sheet's lines on the cases of src's
+// model: what is shown, the cases, the combinations with their factors,
+// the envelope's governing bending moments, the
+// transverse reactions' envelope, with the caution on combined results;
+// none for a model without cases or an analysis not finished.
+func sheetCaseLines(src Source) []string {
+	a := src.Analysis
+	if a == nil || a.Cases == nil || !a.Complete {
+		return nil
+	}
+	r, err := CasesResults(a)
+	if err != nil {
+		return []string{"the cases could not be reported: " + err.Error()}
+	}
+	u := src.Units
+	var names, combos, reactions []string
+	for _, c := range r.Cases {
+		n := c.Name
+		if c.BySpan {
+			n += " (placed by span)"
+		}
+		names = append(names, n)
+	}
+	for _, c := range r.Combinations {
+		kind := c.Kind
+		if c.Label != "" {
+			kind = c.Label
+		}
+		combos = append(combos, fmt.Sprintf("%s (%s) = %s", c.Name, kind, FactorsText(c)))
+	}
+	lines := []string{fmt.Sprintf("Shown: %s; the results above are those of %s. Load cases: %s. Combinations: %s. %s",
+		r.Shown, r.SummaryOf, strings.Join(names, "; "), strings.Join(combos, "; "), CombinedCaution)}
+	for _, q := range r.Envelope.Quantities {
+		switch q.Quantity {
+		case fem.QBendingMoment:
+			k := q.Quantity.Info().Unit
+			lines = append(lines, fmt.Sprintf("Envelope of %s: largest %s at %s, %s; smallest %s at %s, %s.", q.Quantity.Info().Name,
+				u.Format(k, q.Max.Value), u.Format(units.Position, q.Max.X), governingWords(q.Max),
+				u.Format(k, q.Min.Value), u.Format(units.Position, q.Min.X), governingWords(q.Min)))
+		}
+	}
+	for _, re := range r.Envelope.Reactions {
+		hi, lo := re.Max["transverse"], re.Min["transverse"]
+		if hi.Value != 0 || lo.Value != 0 {
+			reactions = append(reactions, fmt.Sprintf("%d: %s (%s) to %s (%s)", re.Support,
+				u.Format(units.Force, lo.Value), governingWords(lo), u.Format(units.Force, hi.Value), governingWords(hi)))
+		}
+	}
+	if len(reactions) > 0 {
+		lines = append(lines, "Transverse reactions, support "+strings.Join(reactions, "; ")+".")
+	}
+	return lines
+}

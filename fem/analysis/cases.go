@@ -1,0 +1,279 @@
+package analysis
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"stave/fem"
+	"stave/fem/check"
+)
+
+// A model with load cases is analysed by superposition on one structure
+// (fem.Member.SolveCombinations): every combination, and every span share
+// of the cases placed by span, is one substitution on one factorization.
+// The analysis shows one case, one combination or the envelope of all
+// combinations; in every view Solution and Exact are one solution, so the
+// drawing, the summary and the checks read them as for a model without
+// cases, and Cases holds the rest.
+
+// ShowKind says what the analysis of a model with cases shows.
+type ShowKind int
+
+// What can be shown.
+const (
+	ShowEnvelope    ShowKind = iota // every combination at once
+	ShowCase                        // one load case, factor 1
+	ShowCombination                 // one combination, every span loaded
+)
+
+// Show picks what is shown: a kind and, for a case or a combination, its
+// index in Model.Cases or in Cases.Combinations.
+type Show struct {
+	Kind  ShowKind
+	Index int
+}
+
+// Cases is what the analysis found of a model with load cases.
+type Cases struct {
+	Show Show
+	// Combinations are those of the envelope (fem.Model.EnvelopeCombinations).
+	Combinations []fem.Combination
+	// Solutions are the combinations' load sets solved, the exact ones
+	// after Finish.
+	Solutions *fem.CombinationSolutions
+	// Envelope is every quantity's envelope over the combinations, in
+	// closed form with the governing combinations, after Finish (the
+	// drawing samples the envelope from Solutions before).
+	Envelope *fem.Envelope
+	// Summaries are each combination's summary (every span loaded), and
+	// Governing the combination each of the analysis's Checks was taken
+	// from, after Finish.
+	Summaries []fem.Summary
+	Governing []int
+	member    *fem.Member
+	mesh      fem.Mesh
+}
+
+// ShowNamed finds the case or combination named name (without regard to
+// case) in m: a combination first, then a case; "envelope" shows the
+// envelope. False when none is so named.
+func ShowNamed(m *fem.Model, name string) (Show, bool) {
+	if strings.EqualFold(name, "envelope") {
+		return Show{Kind: ShowEnvelope}, true
+	}
+	for c, cb := range m.EnvelopeCombinations() {
+		if strings.EqualFold(cb.Name, name) {
+			return Show{Kind: ShowCombination, Index: c}, true
+		}
+	}
+	for k := range m.LoadSetCount() {
+		if strings.EqualFold(m.LoadSetName(k), name) {
+			return Show{Kind: ShowCase, Index: k}, true
+		}
+	}
+	return Show{}, false
+}
+
+// Title names what s shows of m: "envelope of 3 combinations",
+// "load case permanent", "combination ULS 1".
+func (s Show) Title(m *fem.Model) string {
+	switch cbs := m.EnvelopeCombinations(); {
+	case s.Kind == ShowCase && s.Index >= 0 && s.Index < m.LoadSetCount():
+		return "load case " + m.LoadSetName(s.Index)
+	case s.Kind == ShowCombination && s.Index >= 0 && s.Index < len(cbs):
+		return "combination " + cbs[s.Index].Name
+	case len(cbs) == 1:
+		return "envelope of 1 combination"
+	default:
+		return fmt.Sprintf("envelope of %d combinations", len(cbs))
+	}
+}
+
+// solveCases is the first stage for a model with cases: every
+// combination solved, and the shown case or combination as a.Solution
+// (the first combination for the envelope).
+func solveCases(a *Analysis, r Request) {
+	p, err := fem.Prepare(&a.Model)
+	if err != nil {
+		a.Err = err
+		return
+	}
+	mesh := p.Mesh()
+	if r.Nodes != nil {
+		if mesh, err = fem.MeshFromNodes(&a.Model, r.Nodes); err != nil {
+			a.Err = fmt.Errorf("the refined mesh does not fit the model: %w", err)
+			return
+		}
+	}
+	c := &Cases{Show: r.Show, Combinations: a.Model.EnvelopeCombinations(), member: p, mesh: mesh}
+	a.Cases = c
+	// One case or one combination needs its own load sets alone; the
+	// others follow in Finish.
+	switch s := r.Show; {
+	case s.Kind == ShowCase && s.Index >= 0 && s.Index < a.Model.LoadSetCount():
+		a.Solution, a.Err = solveSets(p, mesh, []fem.Loads{p.LoadSets()[s.Index]}, []float64{1})
+	case s.Kind == ShowCombination && s.Index >= 0 && s.Index < len(c.Combinations):
+		var cl *fem.CombinationLoads
+		if cl, a.Err = p.CombinationLoads(); a.Err != nil {
+			return
+		}
+		sets, factors := []fem.Loads{cl.Fixed[s.Index]}, []float64{1}
+		for j, f := range cl.Factors[s.Index] {
+			if f != 0 {
+				sets, factors = append(sets, cl.ShareLoads[j]), append(factors, f)
+			}
+		}
+		a.Solution, a.Err = solveSets(p, mesh, sets, factors)
+	default:
+		c.Show = Show{Kind: ShowEnvelope}
+		if c.Solutions, a.Err = p.SolveCombinations(mesh); a.Err == nil {
+			a.Solution, a.Err = c.Solutions.Solution(0)
+		}
+	}
+}
+
+// solveSets is Σ factors[i]·sets[i] solved on p's structure on mesh.
+func solveSets(p *fem.Member, mesh fem.Mesh, sets []fem.Loads, factors []float64) (*fem.Solution, error) {
+	st, err := p.Structure(mesh)
+	if err != nil {
+		return nil, err
+	}
+	sols := make([]*fem.Solution, len(sets))
+	for i := range sets {
+		if sols[i], err = st.Solve(&sets[i]); err != nil {
+			return nil, err
+		}
+	}
+	if len(sols) == 1 {
+		return sols[0], nil
+	}
+	return fem.CombineSolutions(sols, factors)
+}
+
+// clone is a copy of c that Finish may fill in while the window shows c.
+func (c *Cases) clone() *Cases {
+	d := *c
+	if c.Solutions != nil {
+		sols := *c.Solutions
+		d.Solutions = &sols
+	}
+	return &d
+}
+
+// exact is the exact solution of what c shows, with every combination's
+// (solved here when the first stage did not).
+func (c *Cases) exact() (*fem.Exact, error) {
+	if c.Solutions == nil {
+		var err error
+		if c.Solutions, err = c.member.SolveCombinations(c.mesh); err != nil {
+			return nil, err
+		}
+	}
+	if err := c.Solutions.SolveExact(c.member); err != nil {
+		return nil, err
+	}
+	if c.Show.Kind == ShowCase {
+		exacts, err := c.member.ExactLoadSets()
+		if err != nil {
+			return nil, err
+		}
+		return exacts[c.Show.Index], nil
+	}
+	return c.Solutions.Exact(max(c.Show.Index, 0))
+}
+
+// finish finds the envelope, summarises and checks every combination, and for the envelope
+// keeps each check from the combination where it is worst: design checks
+// of stress and buckling from the strength combinations, of deflection
+// from the serviceability ones (from all when there are none of that
+// kind), checks of the answer from all.
+func (c *Cases) finish(a *Analysis, opts check.Options) {
+	if c.Solutions == nil {
+		return // the exact stage could not solve them, and says why
+	}
+	c.Envelope = c.Solutions.Envelope()
+	per := make([][]check.Result, len(c.Combinations))
+	for k := range c.Combinations {
+		s, err := c.Solutions.Solution(k)
+		if err != nil {
+			continue
+		}
+		e, _ := c.Solutions.Exact(k)
+		z := fem.NewSummarizer(s, e)
+		p := check.NewProbe(&a.Model, s, e)
+		fem.Walk(s, e, z, p)
+		c.Summaries = append(c.Summaries, z.Summary())
+		per[k] = p.Results(z.Comparison(), opts)
+	}
+	if c.Show.Kind != ShowEnvelope || len(c.Summaries) != len(c.Combinations) {
+		return
+	}
+	a.Checks, c.Governing = nil, nil
+	for i, r := range per[0] {
+		best, by := r, 0
+		for k := 1; k < len(per); k++ {
+			if i >= len(per[k]) || per[k][i].Name != r.Name || !c.judges(r, k) {
+				continue
+			}
+			if !c.judges(r, by) || worse(per[k][i], best) {
+				best, by = per[k][i], k
+			}
+		}
+		best.Name += " (governing: " + c.Combinations[by].Name + ")"
+		a.Checks = append(a.Checks, best)
+		c.Governing = append(c.Governing, by)
+	}
+}
+
+// judges reports whether combination k is of the kind that judges check
+// r: deflection on serviceability, other design checks on strength, each
+// only when the model has a combination of that kind.
+func (c *Cases) judges(r check.Result, k int) bool {
+	if r.Kind != check.Design {
+		return true
+	}
+	want := fem.Strength
+	if strings.HasPrefix(r.Name, "Deflection") {
+		want = fem.Serviceability
+	}
+	any := false
+	for _, cb := range c.Combinations {
+		any = any || cb.Kind == want
+	}
+	return !any || c.Combinations[k].Kind == want
+}
+
+// worse reports whether check a is worse than b: a worse status, or the
+// same with a value nearer its limit.
+func worse(a, b check.Result) bool {
+	if a.Status != b.Status {
+		return a.Status > b.Status
+	}
+	return ratio(a) > ratio(b)
+}
+
+func ratio(r check.Result) float64 {
+	if r.Limit == 0 {
+		return math.Abs(r.Value)
+	}
+	return math.Abs(r.Value / r.Limit)
+}
+
+// CaseSummary solves load case k alone and summarises it against its
+// exact solution.
+func (c *Cases) CaseSummary(k int) (fem.Summary, error) {
+	st, err := c.member.Structure(c.mesh)
+	if err != nil {
+		return fem.Summary{}, err
+	}
+	s, err := st.Solve(&c.member.LoadSets()[k])
+	if err != nil {
+		return fem.Summary{}, err
+	}
+	exacts, err := c.member.ExactLoadSets()
+	if err != nil {
+		return fem.Summarize(s, nil), nil
+	}
+	return fem.Summarize(s, exacts[k]), nil
+}

@@ -1,0 +1,67 @@
+package analysis
+
+// Code names a kind of finding for programs that read Stave's output (the
+// warnings of `stave solve --json`, the comment rows of a results table).
+// Codes are stable: a new kind of finding gets a new code, and no code
+// changes its meaning. Codes is the one table of them; docs/json.md lists
+// the same, and a test keeps the two in step.
+type Code string
+
+// The codes, in the order of Codes.
+const (
+	CodeNoResults         Code = "no_results"
+	CodeMechanism         Code = "mechanism"
+	CodeEquilibrium       Code = "equilibrium"
+	CodeCondition         Code = "condition"
+	CodeDesignFail        Code = "design_fail"
+	CodeDesignCaution     Code = "design_caution"
+	CodeNoExact           Code = "no_exact"
+	CodeCoarseMesh        Code = "coarse_mesh"
+	CodeFEError           Code = "fe_error"
+	CodeHandbook          Code = "handbook"
+	CodeMaterial          Code = "material"
+	CodeDesignNotChecked  Code = "design_not_checked"
+	CodeNotVerified       Code = "not_verified"
+	CodeDesignWithinLimit Code = "design_within_limit"
+	CodeVerified          Code = "verified"
+	CodePending           Code = "pending"
+)
+
+// CodeInfo describes one code: the severity its findings have, whether it
+// marks the results as unreliable, and what it means.
+type CodeInfo struct {
+	Code       Code
+	Severity   Severity
+	Unreliable bool
+	Meaning    string
+}
+
+// Codes is every code with its severity and meaning.
+var Codes = []CodeInfo{
+	{CodeNoResults, Fail, true, "the model cannot be solved as given: there are no results (the message names the item and what to do)"},
+	{CodeMechanism, Fail, true, "the supports leave the member free to move (a mechanism): there are no results"},
+	{CodeEquilibrium, Fail, true, "the reactions of the finite element or of the exact solution do not balance the loads: the results cannot be trusted"},
+	{CodeCondition, Caution, true, "the solver's equations are ill-conditioned: round-off may spoil the results"},
+	{CodeDesignFail, Fail, false, "a design check (stress, deflection, buckling) is beyond its limit: the member is too weak for the limits given"},
+	{CodeDesignCaution, Caution, false, "a design check asks to be looked at"},
+	{CodeNoExact, Caution, false, "there is no exact solution of the model: the headline values are the finite element ones, and a peak between nodes may be missed"},
+	{CodeCoarseMesh, Caution, false, "a finite element extreme is further from the exact one than the default mesh's accuracy (0.5 % of the field's largest magnitude): the headline values are exact, the finite element ones are the mesh's approximation"},
+	{CodeFEError, Caution, false, "the finite element stresses differ from the exact ones by more than the error limit somewhere along the member"},
+	{CodeHandbook, Caution, false, "a value differs from the handbook's for the standard case the model matches"},
+	{CodeMaterial, Caution, false, "a material property is far from typical values: check its units"},
+	{CodeDesignNotChecked, Note, false, "a design check could not be made (no allowable stress given, a buckling length that is not a standard case...)"},
+	{CodeNotVerified, Note, false, "a verification of the answer could not be made"},
+	{CodeDesignWithinLimit, OK, false, "a design check is within its limit (a finding about the member, not an approval)"},
+	{CodeVerified, OK, false, "a verification of the answer (equilibrium, error against the exact solution, handbook) agrees"},
+	{CodePending, Pending, false, "the exact solution and the checks follow (the window, while the drawing moves)"},
+}
+
+// info is the entry of Codes for c.
+func (c Code) info() CodeInfo {
+	for _, i := range Codes {
+		if i.Code == c {
+			return i
+		}
+	}
+	return CodeInfo{Code: c}
+}

@@ -1,0 +1,673 @@
+package fem
+
+import (
+	"fmt"
+	"math"
+	"slices"
+)
+
+// Envelopes. The envelope of a member is, at every x and for every
+// quantity, the largest and the smallest value over its combinations (and,
+// for the cases placed by span, over every arrangement of loaded spans),
+// with the combination that governs each.
+//
+// Everything is superposition on one structure. A combination is split
+// into the loads it always applies (its cases with their factors, and the
+// self-weight, temperature and settlements of its cases placed by span) and
+// the span shares of its cases placed by span (Model.SpanLoads), each of
+// which an arrangement switches on or off. Both kinds are load sets solved
+// on the one factorization; the loads always on are the combined load of
+// the cases (CombineLoads), which by superposition has the combination of
+// the cases' results as its result (the tests check the two agree) and
+// costs one substitution per combination instead of one per case.
+//
+// Pattern loading needs no list of arrangements: at each x, share j adds
+// f·s_j(x) when loaded, so the worst arrangement there loads exactly the
+// spans whose share pushes the value the worst way,
+//
+//	max = a(x) + Σ_j max(0, f·s_j(x)),   min = a(x) + Σ_j min(0, f·s_j(x)),
+//
+// with a the loads always on. That is the maximum over all 2^spans on/off
+// arrangements exactly, with no cap on the number of spans. Inside an
+// element every s_j is a polynomial, so the envelope is a polynomial
+// between the roots of the s_j, and its extremes come in closed form from
+// the pieces' ends and the roots of their derivatives.
+
+// Share is the part of a case placed by span that lies on one span.
+type Share struct {
+	Case int // index into Model.Cases
+	Span int // index into Model.Spans()
+}
+
+// EnvelopeCombinations are the combinations an envelope is taken over: the
+// model's own; each case alone with factor 1 when it has cases but no
+// combinations; and one combination "loads" of its own loads when it has
+// no cases.
+func (m *Model) EnvelopeCombinations() []Combination {
+	if len(m.Combinations) > 0 {
+		return m.Combinations
+	}
+	out := make([]Combination, m.LoadSetCount())
+	for k := range out {
+		out[k] = Combination{Name: m.LoadSetName(k), Kind: OtherCombination, Factors: []CaseFactor{{Case: k, Factor: 1}}}
+	}
+	return out
+}
+
+// CombineLoads is Σ factors[i]·sets[i] for load sets gathered on the same
+// key points: line loads, point loads (listed one by one, scaled),
+// temperature changes and settlements.
+func CombineLoads(sets []Loads, factors []float64) (Loads, error) {
+	if len(sets) == 0 || len(sets) != len(factors) {
+		return Loads{}, fmt.Errorf("fem: %d load sets for %d factors: give one factor per load set", len(sets), len(factors))
+	}
+	first := &sets[0]
+	out := Loads{
+		Keys:       first.Keys,
+		Axial:      make([][2]float64, len(first.Axial)),
+		Transverse: make([][2]float64, len(first.Transverse)),
+		Settlement: make([][3]float64, len(first.Settlement)),
+	}
+	for k := range sets {
+		l, f := &sets[k], factors[k]
+		if len(l.Axial) != len(out.Axial) || len(l.Settlement) != len(out.Settlement) {
+			return Loads{}, fmt.Errorf("fem: load set %d was gathered for another member: gather every set on the same key points", k+1)
+		}
+		if f == 0 {
+			continue
+		}
+		for j := range l.Axial {
+			for e := range 2 {
+				out.Axial[j][e] += f * l.Axial[j][e]
+				out.Transverse[j][e] += f * l.Transverse[j][e]
+			}
+		}
+		for _, p := range l.Points {
+			out.Points = append(out.Points, PointLoad{X: p.X, Axial: f * p.Axial, Transverse: f * p.Transverse, Moment: f * p.Moment})
+		}
+		out.TemperatureChange += f * l.TemperatureChange
+		for i, s := range l.Settlement {
+			for d := range s {
+				out.Settlement[i][d] += f * s[d]
+			}
+		}
+	}
+	return out, nil
+}
+
+// CombinationLoads are the load sets of a member's envelope.
+type CombinationLoads struct {
+	Combinations []Combination // as EnvelopeCombinations gives them
+	Spans        [][2]float64  // Model.Spans
+	// Fixed holds, per combination, the loads it always applies.
+	Fixed []Loads
+	// Shares are the span shares that some combination switches, each with
+	// its loads at factor 1 in ShareLoads.
+	Shares     []Share
+	ShareLoads []Loads
+	// Factors[c][j] is combination c's factor on share j, 0 when it does
+	// not take that share's case.
+	Factors [][]float64
+}
+
+// CombinationLoads gathers the load sets of the member's envelope on its
+// key points.
+func (p *Member) CombinationLoads() (*CombinationLoads, error) {
+	m := &p.model
+	cl := &CombinationLoads{Combinations: m.EnvelopeCombinations(), Spans: m.Spans()}
+	// The cases placed by span: their loads always on (the rest of the
+	// case) and their shares.
+	rest := map[int]Loads{}
+	share := map[Share]int{}
+	for k, lc := range m.Cases {
+		if !lc.BySpan {
+			continue
+		}
+		r := m.LoadSet(k)
+		r.PointLoads, r.DistributedLoad = nil, nil
+		rest[k] = GatherLoads(&r, p.keys)
+		for j, s := range m.SpanLoads(k) {
+			if len(s.PointLoads) == 0 && len(s.DistributedLoad) == 0 {
+				continue
+			}
+			share[Share{k, j}] = len(cl.Shares)
+			cl.Shares = append(cl.Shares, Share{k, j})
+			cl.ShareLoads = append(cl.ShareLoads, GatherLoads(&s, p.keys))
+		}
+	}
+	for _, cb := range cl.Combinations {
+		sets := make([]Loads, 0, len(cb.Factors))
+		factors := make([]float64, 0, len(cb.Factors))
+		row := make([]float64, len(cl.Shares))
+		for _, cf := range cb.Factors {
+			if r, ok := rest[cf.Case]; ok {
+				sets = append(sets, r)
+				for j, s := range cl.Shares {
+					if s.Case == cf.Case {
+						row[j] = cf.Factor
+					}
+				}
+			} else {
+				sets = append(sets, p.loadSets[cf.Case])
+			}
+			factors = append(factors, cf.Factor)
+		}
+		fixed, err := CombineLoads(sets, factors)
+		if err != nil {
+			return nil, fmt.Errorf("combination %q: %w", cb.Name, err)
+		}
+		cl.Fixed = append(cl.Fixed, fixed)
+		cl.Factors = append(cl.Factors, row)
+	}
+	return cl, nil
+}
+
+// CombinationSolutions are the load sets of CombinationLoads solved on one
+// structure: the finite element solutions, and the exact ones once
+// SolveExact has run.
+type CombinationSolutions struct {
+	Loads                   *CombinationLoads
+	Fixed, Shares           []*Solution
+	FixedExact, SharesExact []*Exact
+}
+
+// SolveCombinations solves the member's envelope on mesh with one
+// factorization: one substitution per combination and per span share.
+func (p *Member) SolveCombinations(mesh Mesh) (*CombinationSolutions, error) {
+	cl, err := p.CombinationLoads()
+	if err != nil {
+		return nil, err
+	}
+	st, err := p.Structure(mesh)
+	if err != nil {
+		return nil, err
+	}
+	cs := &CombinationSolutions{Loads: cl}
+	if cs.Fixed, err = solveAll(cl.Fixed, st.Solve); err == nil {
+		cs.Shares, err = solveAll(cl.ShareLoads, st.Solve)
+	}
+	return cs, err
+}
+
+// SolveExact adds the exact solutions of every load set, from the member's
+// exact structure (one factorization).
+func (cs *CombinationSolutions) SolveExact(p *Member) error {
+	es, err := p.ExactStructure()
+	if err != nil {
+		return err
+	}
+	if cs.FixedExact, err = solveAll(cs.Loads.Fixed, es.Solve); err != nil {
+		return err
+	}
+	cs.SharesExact, err = solveAll(cs.Loads.ShareLoads, es.Solve)
+	return err
+}
+
+func solveAll[S any](sets []Loads, solve func(*Loads) (S, error)) ([]S, error) {
+	out := make([]S, len(sets))
+	for i := range sets {
+		var err error
+		if out[i], err = solve(&sets[i]); err != nil {
+			return nil, err
+		}
+	}
+	return out, nil
+}
+
+// terms are combination c's solutions with every span loaded and their
+// factors: the loads always on, then the shares it takes.
+func terms[S any](cs *CombinationSolutions, fixed, shares []S, c int) ([]S, []float64) {
+	sols, factors := []S{fixed[c]}, []float64{1}
+	for j, f := range cs.Loads.Factors[c] {
+		if f != 0 {
+			sols, factors = append(sols, shares[j]), append(factors, f)
+		}
+	}
+	return sols, factors
+}
+
+// Solution is combination c with every span of its cases loaded, as they
+// are given.
+func (cs *CombinationSolutions) Solution(c int) (*Solution, error) {
+	sols, factors := terms(cs, cs.Fixed, cs.Shares, c)
+	if len(sols) == 1 {
+		return sols[0], nil
+	}
+	return CombineSolutions(sols, factors)
+}
+
+// Exact is the exact solution of combination c with every span loaded; nil
+// before SolveExact.
+func (cs *CombinationSolutions) Exact(c int) (*Exact, error) {
+	if cs.FixedExact == nil {
+		return nil, nil
+	}
+	sols, factors := terms(cs, cs.FixedExact, cs.SharesExact, c)
+	if len(sols) == 1 {
+		return sols[0], nil
+	}
+	return CombineExact(sols, factors)
+}
+
+// Governing is one extreme value of an envelope, where it is, and what
+// gives it: the combination and, for its cases placed by span, the span
+// shares loaded in the worst arrangement (the others unloaded).
+type Governing struct {
+	X, Value    float64 // m, SI
+	Combination int     // index into CombinationLoads.Combinations
+	Loaded      []Share
+}
+
+// QuantityEnvelope is the largest and smallest value of one quantity over
+// the member and over every combination and arrangement. For the combined
+// stress it is the envelope of both extreme fibres: the largest tension
+// and the largest compression in either.
+type QuantityEnvelope struct {
+	Quantity Quantity
+	Max, Min Governing
+}
+
+// ReactionEnvelope is the largest and smallest value of each component of
+// one support's reaction over every combination and arrangement.
+type ReactionEnvelope struct {
+	Support  int // index into Model.Supports
+	X        float64
+	Max, Min [3]Governing // axial N, transverse N, moment N·m; X is the support's
+}
+
+// Envelope is what a walk over the combinations found.
+type Envelope struct {
+	Quantities []QuantityEnvelope // in report order
+	Reactions  []ReactionEnvelope
+}
+
+// envelopeValues are the values an envelope takes of each solution: the
+// polynomial quantities, then the stresses of the bottom and the top fibre
+// (σa + σb and σa − σb), which are linear in the loads as the combined
+// stress is not.
+const (
+	bottomFibre    = polynomialQuantities
+	topFibre       = polynomialQuantities + 1
+	envelopeValues = polynomialQuantities + 2
+)
+
+// envelopeWalk gathers the envelope element by element.
+type envelopeWalk struct {
+	cs            *CombinationSolutions
+	fixed, shares []Interval
+	degrees       [polynomialQuantities]int
+	degree        [envelopeValues]int
+	lo, hi        [envelopeValues]envelopePoint
+	// The polynomials of one element: the shares', and one combination's
+	// shares with its factors.
+	sharePoly [][envelopeValues]Polynomial
+	parts     []Polynomial
+	cuts      []float64
+	// patterned says which combinations switch span shares.
+	patterned []bool
+}
+
+// envelopePoint is an extreme found so far: where (element, ξ and x), its
+// value and its combination.
+type envelopePoint struct {
+	element     int
+	xi, x       float64
+	value       float64
+	combination int
+}
+
+func newEnvelopeWalk(cs *CombinationSolutions) *envelopeWalk {
+	w := &envelopeWalk{cs: cs, fixed: make([]Interval, len(cs.Fixed)), shares: make([]Interval, len(cs.Shares)),
+		sharePoly: make([][envelopeValues]Polynomial, len(cs.Shares))}
+	w.degrees = cs.Fixed[0].degrees()
+	copy(w.degree[:], w.degrees[:])
+	w.degree[bottomFibre] = max(w.degrees[QAxialStress], w.degrees[QBendingStress])
+	w.degree[topFibre] = w.degree[bottomFibre]
+	for i := range w.lo {
+		w.lo[i].value, w.hi[i].value = math.Inf(1), math.Inf(-1)
+	}
+	for _, row := range cs.Loads.Factors {
+		w.patterned = append(w.patterned, slices.ContainsFunc(row, func(f float64) bool { return f != 0 }))
+	}
+	return w
+}
+
+// endValue is value i at an end f of an interval.
+func endValue(f *Fields, i int) float64 {
+	switch i {
+	case bottomFibre:
+		return f.AxialStress + f.BendingStress
+	case topFibre:
+		return f.AxialStress - f.BendingStress
+	}
+	return Quantity(i).Of(f)
+}
+
+// polynomialOf is value i of interval v as a polynomial in ξ.
+func polynomialOf(v *Interval, i int) Polynomial {
+	switch i {
+	case bottomFibre:
+		return combine(1, &v.poly[QAxialStress], 1, &v.poly[QBendingStress])
+	case topFibre:
+		return combine(1, &v.poly[QAxialStress], -1, &v.poly[QBendingStress])
+	}
+	return v.poly[i]
+}
+
+// visit takes element e into the envelope.
+func (w *envelopeWalk) visit(e int) {
+	for k, s := range w.cs.Fixed {
+		s.elementInterval(e, &w.fixed[k])
+	}
+	for k, s := range w.cs.Shares {
+		s.elementInterval(e, &w.shares[k])
+		for i := range envelopeValues {
+			w.sharePoly[k][i] = polynomialOf(&w.shares[k], i)
+		}
+	}
+	x0, h := w.fixed[0].Start, w.fixed[0].Length
+	for c := range w.fixed {
+		factors := w.cs.Loads.Factors[c]
+		f := &w.fixed[c]
+		for i := range envelopeValues {
+			d := w.degree[i]
+			if d <= 1 && !w.patterned[c] {
+				// Linear: the element's own end values, start first.
+				v0, v1 := endValue(&f.ends[0], i), endValue(&f.ends[1], i)
+				lo, hi := extremum{0, v0}, extremum{0, v0}
+				lo.least(1, v1)
+				hi.most(1, v1)
+				w.take(&w.lo[i], &w.hi[i], e, x0, h, c, lo, hi)
+				continue
+			}
+			a := polynomialOf(f, i)
+			w.parts = w.parts[:0]
+			for j, f := range factors {
+				if f != 0 {
+					w.parts = append(w.parts, combine(f, &w.sharePoly[j][i], 0, &a))
+				}
+			}
+			var lo, hi extremum
+			if len(w.parts) > 0 {
+				lo, hi = w.patternRange(&a, d)
+			} else {
+				lo, hi = rangeOn(&a, d, endValue(&f.ends[0], i), endValue(&f.ends[1], i))
+			}
+			w.take(&w.lo[i], &w.hi[i], e, x0, h, c, lo, hi)
+		}
+	}
+}
+
+// take keeps lo and hi, found on element e (start x0, length h) for
+// combination c, where they pass the extremes so far; the first met wins a
+// tie.
+func (w *envelopeWalk) take(lo, hi *envelopePoint, e int, x0, h float64, c int, l, u extremum) {
+	if l.value < lo.value {
+		*lo = envelopePoint{e, l.xi, x0 + l.xi*h, l.value, c}
+	}
+	if u.value > hi.value {
+		*hi = envelopePoint{e, u.xi, x0 + u.xi*h, u.value, c}
+	}
+}
+
+// patternRange is the smallest and the largest value on [0, 1] of
+// a + Σ min(0, g) and a + Σ max(0, g) over the parts g, all of degree d at
+// most: on each piece between the parts' roots both are one polynomial.
+func (w *envelopeWalk) patternRange(a *Polynomial, d int) (lo, hi extremum) {
+	if len(w.parts) == 0 {
+		return rangeOn(a, d, a[0], a.at(d, 1))
+	}
+	w.cuts = append(w.cuts[:0], 0, 1)
+	var r [polynomialTerms - 1]float64
+	for k := range w.parts {
+		w.cuts = append(w.cuts, r[:w.parts[k].roots(&r)]...)
+	}
+	slices.Sort(w.cuts)
+	lo, hi = extremum{0, math.Inf(1)}, extremum{0, math.Inf(-1)}
+	for i := 1; i < len(w.cuts); i++ {
+		x0, x1 := w.cuts[i-1], w.cuts[i]
+		if !(x1 > x0) {
+			continue
+		}
+		mid := (x0 + x1) / 2
+		upper, lower := *a, *a
+		for k := range w.parts {
+			g := &w.parts[k]
+			if v := g.at(d, mid); v > 0 {
+				upper = combine(1, &upper, 1, g)
+			} else if v < 0 {
+				lower = combine(1, &lower, 1, g)
+			}
+		}
+		l, _ := rangeBetween(&lower, d, x0, x1)
+		_, u := rangeBetween(&upper, d, x0, x1)
+		lo.least(l.xi, l.value)
+		hi.most(u.xi, u.value)
+	}
+	return lo, hi
+}
+
+// rangeBetween is rangeOn on [a, b] ⊂ [0, 1].
+func rangeBetween(p *Polynomial, d int, a, b float64) (lo, hi extremum) {
+	va := p.at(d, a)
+	lo, hi = extremum{a, va}, extremum{a, va}
+	if d >= 2 {
+		dp := p.Derivative()
+		var r [polynomialTerms - 1]float64
+		for _, xi := range r[:dp.roots(&r)] {
+			if xi > a && xi < b {
+				v := p.at(d, xi)
+				lo.least(xi, v)
+				hi.most(xi, v)
+			}
+		}
+	}
+	vb := p.at(d, b)
+	lo.least(b, vb)
+	hi.most(b, vb)
+	return lo, hi
+}
+
+// join takes later, a walk over elements after w's, into w: ties go to
+// w's, the earlier.
+func (w *envelopeWalk) join(later *envelopeWalk) {
+	keep := func(lo, hi *envelopePoint, l, u envelopePoint) {
+		if l.value < lo.value {
+			*lo = l
+		}
+		if u.value > hi.value {
+			*hi = u
+		}
+	}
+	for i := range w.lo {
+		keep(&w.lo[i], &w.hi[i], later.lo[i], later.hi[i])
+	}
+}
+
+// Envelope walks the elements once for every combination and span share:
+// the envelope of each quantity with its governing combination and
+// arrangement, and the reactions' envelope.
+// From parallelWalk elements on the second half of the member goes to a
+// second goroutine, cut as Walk cuts it.
+func (cs *CombinationSolutions) Envelope() *Envelope {
+	n := len(cs.Fixed[0].fields)
+	w := newEnvelopeWalk(cs)
+	if n < parallelWalk {
+		for e := range n {
+			w.visit(e)
+		}
+	} else {
+		later := newEnvelopeWalk(cs)
+		done := make(chan struct{})
+		go func() {
+			for e := n / 2; e < n; e++ {
+				later.visit(e)
+			}
+			close(done)
+		}()
+		for e := range n / 2 {
+			w.visit(e)
+		}
+		<-done
+		w.join(later)
+	}
+	env := &Envelope{Reactions: cs.reactionEnvelope()}
+	for _, q := range Quantities() {
+		var lo, hi Governing
+		if q == QCombinedStress {
+			lo, hi = cs.governing(&w.lo[bottomFibre], bottomFibre, false), cs.governing(&w.hi[bottomFibre], bottomFibre, true)
+			if w.lo[topFibre].value < lo.Value {
+				lo = cs.governing(&w.lo[topFibre], topFibre, false)
+			}
+			if w.hi[topFibre].value > hi.Value {
+				hi = cs.governing(&w.hi[topFibre], topFibre, true)
+			}
+		} else {
+			lo, hi = cs.governing(&w.lo[q], int(q), false), cs.governing(&w.hi[q], int(q), true)
+		}
+		env.Quantities = append(env.Quantities, QuantityEnvelope{Quantity: q, Max: hi, Min: lo})
+	}
+	return env
+}
+
+// governing is the extreme p of value i as a Governing: the spans its
+// combination loads there are those whose share pushes value i up (upper)
+// or down at p.
+func (cs *CombinationSolutions) governing(p *envelopePoint, i int, upper bool) Governing {
+	g := Governing{X: p.x, Value: p.value, Combination: p.combination}
+	var iv Interval
+	for j, f := range cs.Loads.Factors[p.combination] {
+		if f == 0 {
+			continue
+		}
+		cs.Shares[j].elementInterval(p.element, &iv)
+		poly := polynomialOf(&iv, i)
+		if v := f * poly.At(p.xi); upper && v > 0 || !upper && v < 0 {
+			g.Loaded = append(g.Loaded, cs.Loads.Shares[j])
+		}
+	}
+	return g
+}
+
+// reactionEnvelope is the envelope of every support's reaction.
+func (cs *CombinationSolutions) reactionEnvelope() []ReactionEnvelope {
+	out := make([]ReactionEnvelope, len(cs.Fixed[0].Reactions))
+	for i, r := range cs.Fixed[0].Reactions {
+		re := ReactionEnvelope{Support: r.Support, X: r.X}
+		for d := range 3 {
+			for c, s := range cs.Fixed {
+				shares := make([]float64, len(cs.Shares))
+				for j, sh := range cs.Shares {
+					shares[j] = sh.Reactions[i].Force[d]
+				}
+				lo, hi := cs.worst(c, s.Reactions[i].Force[d], shares)
+				lo.X, hi.X = r.X, r.X
+				if c == 0 || lo.Value < re.Min[d].Value {
+					re.Min[d] = lo
+				}
+				if c == 0 || hi.Value > re.Max[d].Value {
+					re.Max[d] = hi
+				}
+			}
+		}
+		out[i] = re
+	}
+	return out
+}
+
+// worst is the smallest and largest value of combination c at one place,
+// where its loads always on give a and the shares give shares (at factor
+// 1), with the spans loaded for each.
+func (cs *CombinationSolutions) worst(c int, a float64, shares []float64) (lo, hi Governing) {
+	lo, hi = Governing{Value: a, Combination: c}, Governing{Value: a, Combination: c}
+	for j, f := range cs.Loads.Factors[c] {
+		switch v := f * shares[j]; {
+		case v > 0:
+			hi.Value += v
+			hi.Loaded = append(hi.Loaded, cs.Loads.Shares[j])
+		case v < 0:
+			lo.Value += v
+			lo.Loaded = append(lo.Loaded, cs.Loads.Shares[j])
+		}
+	}
+	return lo, hi
+}
+
+// EnvelopeSample is the envelope at one x: every quantity's smallest and
+// largest value over the combinations and arrangements (the combined
+// stress over both fibres), and the combination governing each.
+type EnvelopeSample struct {
+	Lo, Hi     Fields
+	LoBy, HiBy [quantityCount]int // indices into CombinationLoads.Combinations
+}
+
+// At samples the envelope of the finite element solutions at x, on side
+// of a point where fields jump, or of the exact solutions when exact is
+// true (which needs SolveExact).
+func (cs *CombinationSolutions) At(x float64, side Side, exact bool) EnvelopeSample {
+	at := func(k int, share bool) Fields {
+		switch {
+		case exact && share:
+			return cs.SharesExact[k].At(x, side)
+		case exact:
+			return cs.FixedExact[k].At(x, side)
+		case share:
+			return cs.Shares[k].At(x, side)
+		}
+		return cs.Fixed[k].At(x, side)
+	}
+	shares := make([][envelopeValues]float64, len(cs.Shares))
+	for j := range shares {
+		f := at(j, true)
+		shares[j] = sampleValues(&f)
+	}
+	var lo, hi [envelopeValues]float64
+	var loBy, hiBy [envelopeValues]int
+	column := make([]float64, len(cs.Shares))
+	for c := range cs.Fixed {
+		f := at(c, false)
+		a := sampleValues(&f)
+		for i := range envelopeValues {
+			for j := range shares {
+				column[j] = shares[j][i]
+			}
+			l, h := cs.worst(c, a[i], column)
+			if c == 0 || l.Value < lo[i] {
+				lo[i], loBy[i] = l.Value, c
+			}
+			if c == 0 || h.Value > hi[i] {
+				hi[i], hiBy[i] = h.Value, c
+			}
+		}
+	}
+	var s EnvelopeSample
+	s.Lo, s.Hi = sampleFields(x, &lo), sampleFields(x, &hi)
+	copy(s.LoBy[:], loBy[:polynomialQuantities])
+	copy(s.HiBy[:], hiBy[:polynomialQuantities])
+	s.Lo.CombinedStress, s.LoBy[QCombinedStress] = lo[bottomFibre], loBy[bottomFibre]
+	if lo[topFibre] < lo[bottomFibre] {
+		s.Lo.CombinedStress, s.LoBy[QCombinedStress] = lo[topFibre], loBy[topFibre]
+	}
+	s.Hi.CombinedStress, s.HiBy[QCombinedStress] = hi[bottomFibre], hiBy[bottomFibre]
+	if hi[topFibre] > hi[bottomFibre] {
+		s.Hi.CombinedStress, s.HiBy[QCombinedStress] = hi[topFibre], hiBy[topFibre]
+	}
+	return s
+}
+
+// sampleValues are the envelope's values of f.
+func sampleValues(f *Fields) [envelopeValues]float64 {
+	v := f.values()
+	var out [envelopeValues]float64
+	copy(out[:], v[:polynomialQuantities])
+	out[bottomFibre] = f.AxialStress + f.BendingStress
+	out[topFibre] = f.AxialStress - f.BendingStress
+	return out
+}
+
+// sampleFields are fields at x with the polynomial quantities of v.
+func sampleFields(x float64, v *[envelopeValues]float64) Fields {
+	return Fields{X: x, AxialDisplacement: v[QAxialDisplacement], Deflection: v[QDeflection], Rotation: v[QRotation],
+		AxialForce: v[QAxialForce], ShearForce: v[QShearForce], BendingMoment: v[QBendingMoment],
+		AxialStress: v[QAxialStress], BendingStress: v[QBendingStress]}
+}

@@ -1,0 +1,359 @@
+package fem
+
+import (
+	"math"
+	"math/rand/v2"
+	"testing"
+)
+
+// solveCombinations prepares m and solves its envelope's load sets, FE and
+// exact.
+func solveCombinations(t *testing.T, m *Model) (*Member, *CombinationSolutions) {
+	t.Helper()
+	p, err := Prepare(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	cs, err := p.SolveCombinations(p.Mesh())
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := cs.SolveExact(p); err != nil {
+		t.Fatal(err)
+	}
+	return p, cs
+}
+
+// The loads always on of a combination, solved as one load set, give what
+// combining its cases' solutions gives (superposition), for the finite
+// element answer and the exact one (random continuous beams).
+func TestCombinedLoadsAreCombinedResults(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(41, 42))
+	for trial := range 15 {
+		m := randomTwoCases(rnd)
+		if len(m.Cases[0].PointLoads) == 0 && m.Gravity == [2]float64{} {
+			m.Cases[0].PointLoads = []PointLoad{{X: m.Length() / 3, Transverse: -1e3}}
+		}
+		factors := []float64{1.35 + rnd.Float64(), -0.5 + 2*rnd.Float64()}
+		m.Combinations = []Combination{{Name: "c", Factors: []CaseFactor{{0, factors[0]}, {1, factors[1]}}}}
+		m.Mesh = MeshSettings{Elements: 40}
+		p, cs := solveCombinations(t, &m)
+		fe, ex := combineCases(t, p, factors)
+		got, gotEx := cs.Fixed[0], cs.FixedExact[0]
+		scale := 0.0
+		for _, d := range fe.Displacement {
+			scale = max(scale, math.Abs(d[0]), math.Abs(d[1]), math.Abs(d[2]))
+		}
+		for i, d := range fe.Displacement {
+			for j := range d {
+				if math.Abs(got.Displacement[i][j]-d[j]) > 1e-9*scale {
+					t.Fatalf("trial %d: node %d %s %.12g from the combined loads, %.12g combined from the cases", trial, i, Dof(j), got.Displacement[i][j], d[j])
+				}
+			}
+		}
+		for _, x := range []float64{0.13, 0.5, 0.77} {
+			x *= m.Length()
+			a, b := got.At(x, Right), fe.At(x, Right)
+			c, d := gotEx.At(x, Right), ex.At(x, Right)
+			for _, q := range []Quantity{QBendingMoment, QShearForce, QAxialForce} {
+				tol := 1e-8 * (math.Abs(q.Of(&b)) + math.Abs(q.Of(&d)) + 1)
+				if math.Abs(q.Of(&a)-q.Of(&b)) > tol || math.Abs(q.Of(&c)-q.Of(&d)) > tol {
+					t.Errorf("trial %d: %s at %.3g m: FE %.9g against %.9g, exact %.9g against %.9g", trial, q, x, q.Of(&a), q.Of(&b), q.Of(&c), q.Of(&d))
+				}
+			}
+		}
+	}
+}
+
+// The envelope equals the largest and smallest extremes over the
+// combinations, each found on its own by fem.Summarize (brute force), and
+// names the combination that has them.
+func TestEnvelopeIsWorstCombination(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(7, 8))
+	for trial := range 10 {
+		m := randomTwoCases(rnd)
+		m.Cases = []LoadCase{
+			{Name: "a", PointLoads: []PointLoad{{X: 0.3 * m.Length(), Transverse: -8e3, Axial: 2e3}}, SelfWeight: m.Gravity != [2]float64{}},
+			{Name: "b", PointLoads: []PointLoad{{X: 0.7 * m.Length(), Transverse: 5e3, Moment: 1e3}}},
+			{Name: "c", DistributedLoad: []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -3e3}, {m.Length(), 1e3}}}}},
+		}
+		for k := range 4 {
+			cb := Combination{Name: string(rune('p' + k))}
+			for c := range m.Cases {
+				if f := 2*rnd.Float64() - 0.5; rnd.IntN(3) > 0 {
+					cb.Factors = append(cb.Factors, CaseFactor{c, f})
+				}
+			}
+			if len(cb.Factors) == 0 {
+				cb.Factors = []CaseFactor{{k % 3, 1}}
+			}
+			m.Combinations = append(m.Combinations, cb)
+		}
+		m.Mesh = MeshSettings{Elements: 30}
+		_, cs := solveCombinations(t, &m)
+		env := cs.Envelope()
+		var sums []Summary
+		for c := range m.Combinations {
+			s, err := cs.Solution(c)
+			if err != nil {
+				t.Fatal(err)
+			}
+			sums = append(sums, Summarize(s, nil))
+		}
+		for qi, qe := range env.Quantities {
+			q := qe.Quantity
+			hi, lo := math.Inf(-1), math.Inf(1)
+			var hiBy, loBy int
+			for c, s := range sums {
+				e := s.Extremes[qi]
+				if q == QCombinedStress {
+					continue
+				}
+				if e.Max > hi {
+					hi, hiBy = e.Max, c
+				}
+				if e.Min < lo {
+					lo, loBy = e.Min, c
+				}
+			}
+			if q == QCombinedStress {
+				continue
+			}
+			if !closeTo(qe.Max.Value, hi) || !closeTo(qe.Min.Value, lo) {
+				t.Errorf("trial %d, %s: envelope %.9g to %.9g, brute force %.9g to %.9g", trial, q, qe.Min.Value, qe.Max.Value, lo, hi)
+			}
+			if qe.Max.Value != sums[qe.Max.Combination].Extremes[qi].Max && qe.Max.Combination != hiBy {
+				t.Errorf("trial %d, %s: largest governed by combination %d, brute force %d", trial, q, qe.Max.Combination, hiBy)
+			}
+			if !closeTo(sums[qe.Min.Combination].Extremes[qi].Min, lo) {
+				t.Errorf("trial %d, %s: smallest governed by combination %d, brute force %d", trial, q, qe.Min.Combination, loBy)
+			}
+		}
+	}
+}
+
+// close compares results of different sums of the same terms: to 1e-9 of
+// their size, with an absolute floor for values that vanish.
+func closeTo(a, b float64) bool {
+	return math.Abs(a-b) <= 1e-9*max(math.Abs(a), math.Abs(b))+1e-12
+}
+
+// threeSpans is a continuous beam of three equal spans L on a pinned and
+// three roller supports, with a permanent uniform load g and an imposed
+// uniform load q placed by span.
+func threeSpans(L, g, q float64) *Model {
+	uniform := func(w float64) []DistributedLoad {
+		return []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, w}, {3 * L, w}}}}
+	}
+	return &Model{
+		Segments: []Segment{testSegment(0, 3*L)},
+		Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}, {X: 2 * L, Kind: Roller}, {X: 3 * L, Kind: Roller}},
+		Cases: []LoadCase{
+			{Name: "permanent", DistributedLoad: uniform(g)},
+			{Name: "imposed", DistributedLoad: uniform(q), BySpan: true},
+		},
+		Mesh: MeshSettings{Elements: 60},
+	}
+}
+
+// arrangement is the three-span beam with the imposed load on the spans of
+// mask only, placed by hand as plain loads: the brute force's model.
+func arrangement(L, g, q float64, mask int, factors [2]float64) *Model {
+	m := threeSpans(L, g, q)
+	c := m.LoadSet(0)
+	c.DistributedLoad[0].Points[0].Intensity *= factors[0]
+	c.DistributedLoad[0].Points[1].Intensity *= factors[0]
+	for s := range 3 {
+		if mask&(1<<s) != 0 {
+			c.DistributedLoad = append(c.DistributedLoad, DistributedLoad{Direction: Transverse,
+				Points: []LoadPoint{{float64(s) * L, factors[1] * q}, {float64(s+1) * L, factors[1] * q}}})
+		}
+	}
+	return &c
+}
+
+// Pattern loading on three equal spans: the envelope against the worst of
+// all 2³ arrangements of the imposed load, each solved on its own as a
+// model of plain loads (brute force), and the governing arrangements
+// against the continuous-beam coefficients (three equal spans, uniform
+// load, from memory, e.g. the AISC Manual's beam diagrams; checked here by
+// the three-moment equation): imposed load alone, the largest span moment
+// 0.10125·qL² with the end spans loaded (alternate spans, support moments
+// −qL²/20), the largest support moment −7qL²/60 with two adjacent spans
+// loaded.
+func TestThreeSpanPattern(t *testing.T) {
+	const L, g, q = 4.0, -6e3, -10e3
+	factors := [2]float64{1.35, 1.5}
+	m := threeSpans(L, g, q)
+	m.Combinations = []Combination{{Name: "strength", Factors: []CaseFactor{{0, factors[0]}, {1, factors[1]}}}}
+	_, cs := solveCombinations(t, m)
+	env := cs.Envelope()
+	var brute [8]Summary
+	for mask := range 8 {
+		s, err := Solve(arrangement(L, g, q, mask, factors))
+		if err != nil {
+			t.Fatal(err)
+		}
+		brute[mask] = Summarize(s, nil)
+	}
+	for qi, qe := range env.Quantities {
+		hi, lo := math.Inf(-1), math.Inf(1)
+		hiMask, loMask := 0, 0
+		for mask, s := range brute {
+			e := s.Extremes[qi]
+			if qe.Quantity == QCombinedStress {
+				e.Max, e.Min = fibreExtremes(s, qi)
+			}
+			if e.Max > hi+1e-9*math.Abs(hi) {
+				hi, hiMask = e.Max, mask
+			}
+			if e.Min < lo-1e-9*math.Abs(lo) {
+				lo, loMask = e.Min, mask
+			}
+		}
+		if !near(qe.Max.Value, hi) || !near(qe.Min.Value, lo) {
+			t.Errorf("%s: envelope %.9g to %.9g, worst arrangements %.9g (spans %03b) to %.9g (spans %03b)",
+				qe.Quantity, qe.Min.Value, qe.Max.Value, lo, loMask, hi, hiMask)
+		}
+		// The governing arrangement, solved on its own, reaches the value.
+		for _, gv := range []Governing{qe.Max, qe.Min} {
+			mask := 0
+			for _, s := range gv.Loaded {
+				mask |= 1 << s.Span
+			}
+			sol, _ := Solve(arrangement(L, g, q, mask, factors))
+			f := sol.At(gv.X, Right)
+			fl := sol.At(gv.X, Left)
+			v := qe.Quantity.Of(&f)
+			if qe.Quantity == QCombinedStress {
+				v = gv.Value // fibre of either side: checked above
+			}
+			if !near(v, gv.Value) && !near(qe.Quantity.Of(&fl), gv.Value) {
+				t.Errorf("%s: %.9g at %.4g m with spans %03b loaded, which give %.9g there", qe.Quantity, gv.Value, gv.X, mask, v)
+			}
+		}
+	}
+	// The imposed load alone, against the coefficients.
+	m.Combinations = []Combination{{Name: "imposed", Factors: []CaseFactor{{1, 1}}}}
+	_, cs = solveCombinations(t, m)
+	env = cs.Envelope()
+	moment := env.Quantities[QBendingMoment]
+	W := -q
+	// The values from the exact solutions' envelope (the finite element
+	// moment is off by about q·h²/12 between nodes); the arrangements from
+	// the finite element one.
+	if got, want := cs.At(0.45*L, Right, true).Hi.BendingMoment, 0.10125*W*L*L; math.Abs(got-want) > 1e-9*W*L*L {
+		t.Errorf("largest span moment %.9g, want 0.10125·qL² = %.9g", got, want)
+	}
+	if math.Abs(moment.Max.X-0.45*L) > L/60 {
+		t.Errorf("largest span moment at %.4g m, want 0.45·L = %.4g m within an element", moment.Max.X, 0.45*L)
+	}
+	if spans := spansOf(moment.Max.Loaded); spans != 0b101 {
+		t.Errorf("largest span moment with spans %03b loaded, want the end spans (101)", spans)
+	}
+	if got, want := cs.At(L, Left, true).Lo.BendingMoment, -7*W*L*L/60; math.Abs(got-want) > 1e-9*W*L*L {
+		t.Errorf("largest support moment %.9g, want −7qL²/60 = %.9g", got, want)
+	}
+	if moment.Min.X != L && moment.Min.X != 2*L {
+		t.Errorf("largest support moment at %.6g m, want over an inner support", moment.Min.X)
+	}
+	if spans := spansOf(moment.Min.Loaded); spans != 0b011 && spans != 0b110 {
+		t.Errorf("largest support moment with spans %03b loaded, want two adjacent spans", spans)
+	}
+	// The support reactions: the middle ones largest with the adjacent
+	// spans loaded, the brute force's largest.
+	for i, re := range env.Reactions {
+		hi := math.Inf(-1)
+		for mask := range 8 {
+			sol, _ := Solve(arrangement(L, 0, q, mask, [2]float64{0, 1}))
+			hi = max(hi, sol.Reactions[i].Force[Transverse])
+		}
+		if !near(re.Max[Transverse].Value, hi) {
+			t.Errorf("support %d: largest reaction %.9g, brute force %.9g", i+1, re.Max[Transverse].Value, hi)
+		}
+	}
+}
+
+// fibreExtremes are the largest and smallest stress of either fibre along
+// the member in summary s of a beam without axial force, whose fibres
+// carry ±σb.
+func fibreExtremes(s Summary, _ int) (hi, lo float64) {
+	b := s.Extremes[QBendingStress]
+	return max(b.Max, -b.Min), min(b.Min, -b.Max)
+}
+
+func near(a, b float64) bool { return math.Abs(a-b) <= 1e-7*max(math.Abs(a), math.Abs(b))+1e-9 }
+
+func spansOf(loaded []Share) int {
+	mask := 0
+	for _, s := range loaded {
+		mask |= 1 << s.Span
+	}
+	return mask
+}
+
+// The envelope sampled at a point is the worst over the combinations and
+// the arrangements there, FE and exact, and names the combination that
+// gives it.
+func TestEnvelopeAt(t *testing.T) {
+	const L, g, q = 3.0, -4e3, -7e3
+	m := threeSpans(L, g, q)
+	m.Combinations = []Combination{
+		{Name: "one", Factors: []CaseFactor{{0, 1.35}, {1, 1.5}}},
+		{Name: "two", Factors: []CaseFactor{{0, 1}}},
+	}
+	_, cs := solveCombinations(t, m)
+	for _, x := range []float64{0.4, 1.1, 3.0, 4.7, 7.9} {
+		for _, exact := range []bool{false, true} {
+			got := cs.At(x, Right, exact)
+			hi, lo := math.Inf(-1), math.Inf(1)
+			hiBy := -1
+			for c, f := range [][2]float64{{1.35, 1.5}, {1, 0}} {
+				for mask := range 8 {
+					mm := arrangement(L, g, q, mask, f)
+					var v float64
+					if exact {
+						e, _ := SolveExact(mm)
+						v = e.At(x, Right).BendingMoment
+					} else {
+						s, _ := Solve(mm)
+						v = s.At(x, Right).BendingMoment
+					}
+					if v > hi {
+						hi, hiBy = v, c
+					}
+					lo = min(lo, v)
+				}
+			}
+			if !near(got.Hi.BendingMoment, hi) || !near(got.Lo.BendingMoment, lo) {
+				t.Errorf("x = %g m, exact %v: M from %.9g to %.9g, brute force %.9g to %.9g", x, exact, got.Lo.BendingMoment, got.Hi.BendingMoment, lo, hi)
+			}
+			if got.HiBy[QBendingMoment] != hiBy {
+				t.Errorf("x = %g m, exact %v: largest M governed by %d, brute force %d", x, exact, got.HiBy[QBendingMoment], hiBy)
+			}
+		}
+	}
+}
+
+// A model without cases has one combination, its own loads, whose
+// envelope is its solution's extremes.
+func TestEnvelopeWithoutCases(t *testing.T) {
+	m := twoSpans(4, -5e3)
+	m.DistributedLoad, m.Cases = m.Cases[0].DistributedLoad, nil
+	_, cs := solveCombinations(t, m)
+	cbs := m.EnvelopeCombinations()
+	if len(cbs) != 1 || cbs[0].Name != "loads" {
+		t.Fatalf("combinations %+v, want one named loads", cbs)
+	}
+	s, _ := Solve(m)
+	want := Summarize(s, nil)
+	env := cs.Envelope()
+	for i, qe := range env.Quantities {
+		if qe.Quantity == QCombinedStress {
+			continue
+		}
+		if !closeTo(qe.Max.Value, want.Extremes[i].Max) || !closeTo(qe.Min.Value, want.Extremes[i].Min) {
+			t.Errorf("%s: %.9g to %.9g, the solution's %.9g to %.9g", qe.Quantity, qe.Min.Value, qe.Max.Value, want.Extremes[i].Min, want.Extremes[i].Max)
+		}
+	}
+}

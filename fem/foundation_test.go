@@ -1,0 +1,368 @@
+package fem
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strings"
+	"testing"
+)
+
+// groundModel is the test steel member of length L on a foundation of
+// modulus k across it along its whole length, held along its axis at the
+// middle (the foundation holds it across).
+func groundModel(L, k float64) *Model {
+	return &Model{
+		Segments:    []Segment{testSegment(0, L)},
+		Supports:    []Support{{X: L / 2, Kind: AxialOnly}},
+		Foundations: []Foundation{{Start: 0, End: L, Modulus: k}},
+	}
+}
+
+// A point load P on a long beam on an elastic foundation: far from the
+// ends, w = −P·β/(2k)·e^(−βξ)·(cos βξ + sin βξ), M = P/(4β)·e^(−βξ)·(cos βξ
+// − sin βξ) and |V| = P/2·e^(−βξ)·cos βξ at ξ = |x − a| from the load,
+// β = (k/4EI)^¼ (Hetényi, Beams on Elastic Foundation, 1946, the infinite
+// beam; also Roark's Formulas for Stress and Strain, beams on elastic
+// foundations; from memory). With β·L/2 = 21 the ends change these by
+// about e^(−21) ≈ 8e-10 of their size. The exact solution must give them to
+// round-off whatever basis its stretches take (the stretches either side
+// of the load are long: decaying exponentials; the FE mesh's own points do
+// not matter to it); the default mesh within its stated accuracy.
+func TestLongBeamOnFoundationPointLoad(t *testing.T) {
+	ei := testE * testI
+	const k = 6.4e6 // N/m²: β = (6.4e6/(4·1.6e7))^¼ = 0.5623 /m
+	beta := math.Sqrt(math.Sqrt(k / (4 * ei)))
+	L := 42 / beta
+	const P = 80e3 // N, down
+	m := groundModel(L, k)
+	m.PointLoads = []PointLoad{{X: L / 2, Transverse: -P}}
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := mustSolve(t, m)
+	wScale, mScale, vScale := P*beta/(2*k), P/(4*beta), P/2
+	for _, xi := range []float64{0, 0.3, 1, 2.5, 4, 7} {
+		decay := math.Exp(-beta * xi)
+		c, sn := math.Cos(beta*xi), math.Sin(beta*xi)
+		w := -wScale * decay * (c + sn)
+		mo := mScale * decay * (c - sn)
+		v := vScale * decay * c
+		for _, x := range []float64{L/2 - xi, L/2 + xi} {
+			side, sign := Left, 1.0 // V = +P/2 just left of a downward load, −P/2 right of it
+			if x > L/2 || xi == 0 && x == L/2 {
+				side, sign = Right, -1
+			}
+			if xi == 0 && x < L/2 {
+				continue
+			}
+			f := e.At(x, side)
+			if math.Abs(f.Deflection-w) > 1e-9*wScale || math.Abs(f.BendingMoment-mo) > 1e-9*mScale || math.Abs(f.ShearForce-sign*v) > 1e-9*vScale {
+				t.Errorf("exact at x = %.4g: w %.12g M %.12g V %.12g, want %.12g %.12g %.12g", x, f.Deflection, f.BendingMoment, f.ShearForce, w, mo, sign*v)
+			}
+			g := s.At(x, side)
+			if math.Abs(g.Deflection-w) > MeshAccuracy*wScale || math.Abs(g.BendingMoment-mo) > MeshAccuracy*mScale {
+				t.Errorf("FE (default mesh) at x = %.4g: w %.6g M %.6g, want %.6g %.6g within %.1f %% of the extremes", x, g.Deflection, g.BendingMoment, w, mo, 100*MeshAccuracy)
+			}
+		}
+	}
+	// The foundation carries the whole load: its resultant is P up, acting
+	// under the load. The FE one is as good as its solve: within the
+	// round-off its condition number allows (Solution.Condition).
+	roundOff := max(1e-9, 4*s.Condition*0x1p-52)
+	for name, rs := range map[string][]FoundationReaction{"FE": s.Foundations, "exact": e.Foundations()} {
+		if len(rs) != 1 || relErr(rs[0].Force[1], P) > roundOff || relErr(rs[0].Centre(), L/2) > roundOff {
+			t.Errorf("%s foundation reaction %+v, want %.6g N at x = %.6g m", name, rs, P, L/2)
+		}
+	}
+	if r := s.Equilibrium.Residual; math.Abs(r[1]) > roundOff*P || math.Abs(r[2]) > roundOff*P*L {
+		t.Errorf("FE equilibrium residual %v beyond %.2g relative", r, roundOff)
+	}
+}
+
+// A free beam of any length on an elastic foundation under a uniform load q
+// settles uniformly by q/k and does not bend (Hetényi, 1946, from memory:
+// the foundation's pressure matches the load point by point). The
+// Hermite element with the consistent foundation stiffness holds a uniform
+// deflection exactly, so FE and exact agree with it to round-off, and the
+// foundation carries q·L.
+func TestFreeBeamOnFoundationUniformLoad(t *testing.T) {
+	const L, q = 9.0, -25e3
+	for _, k := range []float64{1e3, 2e6, 5e8} { // λ = β·L from 0.4 to 28: both bases
+		t.Run(fmt.Sprintf("k = %.0e", k), func(t *testing.T) {
+			m := groundModel(L, k)
+			m.DistributedLoad = []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, q}, {L, q}}}}
+			m.Mesh = MeshSettings{Elements: 12}
+			e, err := SolveExact(m)
+			if err != nil {
+				t.Fatal(err)
+			}
+			s := mustSolve(t, m)
+			for name, f := range map[string]Field{"FE": s, "exact": e} {
+				for _, x := range []float64{0, 1.7, L / 2, 8.2, L} {
+					got := f.At(x, Right)
+					if relErr(got.Deflection, q/k) > 1e-9 || math.Abs(got.BendingMoment) > 1e-9*math.Abs(q)*L*L || math.Abs(got.ShearForce) > 1e-9*math.Abs(q)*L {
+						t.Errorf("%s at x = %g: w %.10g (want %.10g), M %.3g, V %.3g (want 0)", name, x, got.Deflection, q/k, got.BendingMoment, got.ShearForce)
+					}
+				}
+			}
+			for name, rs := range map[string][]FoundationReaction{"FE": s.Foundations, "exact": e.Foundations()} {
+				if relErr(rs[0].Force[1], -q*L) > 1e-9 || relErr(rs[0].Centre(), L/2) > 1e-9 {
+					t.Errorf("%s foundation reaction %+v, want %.6g N at x = %g m", name, rs[0], -q*L, L/2)
+				}
+			}
+		})
+	}
+}
+
+// A pile held along its shaft by elastic skin friction kₐ and pushed at its
+// head by P, its tip free: u = P·cosh(α(L − x))/(EA·α·sinh αL) and N =
+// −P·sinh(α(L − x))/sinh αL, α = (kₐ/EA)^½, so the head settles by
+// P/(EA·α·tanh αL) (the bar on an elastic axial foundation, the
+// load-transfer solution for a floating pile; e.g. Fleming et al., Piling
+// Engineering, from memory). αL runs from 0.1 (series) to 30 (decaying
+// exponentials).
+func TestPileWithSkinFriction(t *testing.T) {
+	const L, P = 15.0, 400e3
+	ea := testE * testA
+	for _, aL := range []float64{0.1, 1.9, 2.1, 8, 30} {
+		t.Run(fmt.Sprintf("αL = %g", aL), func(t *testing.T) {
+			alpha := aL / L
+			ka := alpha * alpha * ea
+			m := &Model{
+				Segments:    []Segment{testSegment(0, L)},
+				Foundations: []Foundation{{Start: 0, End: L, AxialModulus: ka}},
+				PointLoads:  []PointLoad{{X: 0, Axial: P}},
+				Mesh:        MeshSettings{Elements: 400},
+			}
+			e, err := SolveExact(m)
+			if err != nil {
+				t.Fatal(err)
+			}
+			s := mustSolve(t, m)
+			if !s.AxialOnly {
+				t.Errorf("a pile under an axial load alone was solved with bending")
+			}
+			head := P / (ea * alpha * math.Tanh(aL))
+			for _, x := range []float64{0, 0.2 * L, 0.5 * L, 0.9 * L, L} {
+				u := P * math.Cosh(alpha*(L-x)) / (ea * alpha * math.Sinh(aL))
+				n := -P * math.Sinh(alpha*(L-x)) / math.Sinh(aL)
+				f := e.At(x, Right)
+				if math.Abs(f.AxialDisplacement-u) > 1e-9*head || math.Abs(f.AxialForce-n) > 1e-9*P {
+					t.Errorf("exact at x = %g: u %.12g N %.12g, want %.12g %.12g", x, f.AxialDisplacement, f.AxialForce, u, n)
+				}
+				// Linear bars on a foundation: nodal u within O(h²) of the truth.
+				if g := s.At(x, Right); math.Abs(g.AxialDisplacement-u) > 1e-3*head {
+					t.Errorf("FE at x = %g: u %.8g, want %.8g", x, g.AxialDisplacement, u)
+				}
+			}
+			roundOff := max(1e-9, 4*s.Condition*0x1p-52)
+			for name, rs := range map[string][]FoundationReaction{"FE": s.Foundations, "exact": e.Foundations()} {
+				if relErr(rs[0].Force[0], -P) > roundOff {
+					t.Errorf("%s skin friction %.10g N, want %.10g", name, rs[0].Force[0], -P)
+				}
+			}
+		})
+	}
+}
+
+// The exact solution does not care which basis a stretch takes: a modulus
+// a hair either side of the one where λ crosses groundSeriesLimit gives the
+// same fields to within the change in the modulus.
+func TestFoundationBasesAgree(t *testing.T) {
+	const L = 4.0
+	ei := testE * testI
+	// λ = β·L/2 on the two stretches either side of the load.
+	kAt := func(lambda float64) float64 { b := lambda / (L / 2); return 4 * ei * b * b * b * b }
+	var got [2]Fields
+	for i, k := range []float64{kAt(groundSeriesLimit) * (1 - 1e-12), kAt(groundSeriesLimit) * (1 + 1e-12)} {
+		m := groundModel(L, k)
+		m.Supports = append(m.Supports, Support{X: 0, Kind: Roller})
+		m.PointLoads = []PointLoad{{X: L / 2, Transverse: -1e4, Moment: 3e3}}
+		e, err := SolveExact(m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if i == 0 && e.stretches[0].beam.ground.scale > groundSeriesLimit || i == 1 && e.stretches[0].beam.ground.scale <= groundSeriesLimit {
+			t.Fatalf("the stretch's scale %.15g is on the wrong side of %g", e.stretches[0].beam.ground.scale, float64(groundSeriesLimit))
+		}
+		got[i] = e.At(1.3, Right)
+	}
+	a, b := got[0].values(), got[1].values()
+	for q := range a {
+		if math.Abs(a[q]-b[q]) > 1e-9*math.Max(math.Abs(a[q]), 1e-12) {
+			t.Errorf("%s: %.15g with the series, %.15g with the decaying functions", Quantity(q).Info().Name, a[q], b[q])
+		}
+	}
+}
+
+// A foundation under part of a member with a hinge: the FE answer
+// converges to the exact one as the mesh refines, both balance the loads,
+// and the foundation takes what the supports do not.
+func TestPartialFoundationConverges(t *testing.T) {
+	const L = 10.0
+	m := &Model{
+		Segments:    []Segment{testSegment(0, 4), testSegment(4, L)},
+		Supports:    []Support{{X: 0, Kind: Pinned}},
+		Hinges:      []Hinge{{X: 2}},
+		Foundations: []Foundation{{Start: 3, End: L, Modulus: 4e6}, {Start: 6, End: 8, Modulus: 1e6}},
+		PointLoads:  []PointLoad{{X: 1, Transverse: -2e4}, {X: 7, Transverse: -3e4, Moment: 1e4}},
+		DistributedLoad: []DistributedLoad{
+			{Direction: Transverse, Points: []LoadPoint{{2.5, -4e3}, {9, -1e3}}},
+		},
+	}
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var last float64
+	for i, n := range []int{20, 80, 320} {
+		m.Mesh = MeshSettings{Elements: n}
+		s := mustSolve(t, m)
+		worst := 0.0
+		for x := 0.05; x < L; x += 0.1 {
+			worst = max(worst, math.Abs(s.At(x, Right).BendingMoment-e.At(x, Right).BendingMoment))
+		}
+		if i > 0 && worst > last/8 { // M converges as h² (common practice: 16 times less per halving twice)
+			t.Errorf("%d elements: moment error %.3g, not below an eighth of %.3g", n, worst, last)
+		}
+		last = worst
+		r, tol := s.Equilibrium.Residual, max(1e-9, 4*s.Condition*0x1p-52)
+		if math.Abs(r[1]) > tol*5e4 || math.Abs(r[2]) > tol*5e4*L {
+			t.Errorf("%d elements: equilibrium residual %v", n, r)
+		}
+		ground := 0.0
+		for _, f := range s.Foundations {
+			ground += f.Force[1]
+		}
+		want := 2e4 + 3e4 + 6.5*2.5e3 - s.Reactions[0].Force[1]
+		if relErr(ground, want) > max(1e-9, 4*s.Condition*0x1p-52) {
+			t.Errorf("%d elements: the foundations carry %.10g N, want %.10g", n, ground, want)
+		}
+	}
+	var exactGround [2]float64
+	for i, f := range e.Foundations() {
+		exactGround[i] = f.Force[1]
+	}
+	total := exactGround[0] + exactGround[1] + e.Reactions()[0].Force[1]
+	if relErr(total, 2e4+3e4+6.5*2.5e3) > 1e-9 {
+		t.Errorf("exact: foundations %v and the support %.10g N carry %.10g N, want %.10g", exactGround, e.Reactions()[0].Force[1], total, 2e4+3e4+6.5*2.5e3)
+	}
+}
+
+// Every foundation input that makes no sense is refused where it lies.
+func TestValidateFoundations(t *testing.T) {
+	ground := func(f Foundation) func(m *Model) {
+		return func(m *Model) { m.Foundations = []Foundation{f} }
+	}
+	checkValidation(t, []validationCase{
+		{"foundation end before start", ground(Foundation{Start: 2, End: 1, Modulus: 1e6}), place(FoundationItem, 0, EndProperty), "foundation 1 runs from x = 2.0 m to x = 1.0 m: its end must lie beyond its start"},
+		{"foundation outside", ground(Foundation{Start: 1, End: 3.5, Modulus: 1e6}), place(FoundationItem, 0, EndProperty), "foundation 1 at x = 3.5 m lies outside the member (length 3.0 m)"},
+		{"negative modulus", ground(Foundation{Start: 0, End: 3, Modulus: -1e6}), place(FoundationItem, 0, ModulusProperty), "foundation 1: the modulus across the member is -1e+06 N/m²: it must not be negative"},
+		{"NaN axial modulus", ground(Foundation{Start: 0, End: 3, AxialModulus: math.NaN()}), place(FoundationItem, 0, AxialModulusProperty), "foundation 1: the axial modulus is NaN"},
+		{"no modulus", ground(Foundation{Start: 0, End: 3}), place(FoundationItem, 0, ModulusProperty), "foundation 1 has no stiffness across or along the member"},
+		{"modulus out of range", ground(Foundation{Start: 0, End: 3, Modulus: 1e200}), place(FoundationItem, 0, ModulusProperty), "outside the range the solvers work in"},
+		{"axial-only member on a foundation", func(m *Model) {
+			*m = Model{Segments: m.Segments, Supports: []Support{{X: 0, Kind: AxialOnly}}, AxialOnly: true, Foundations: []Foundation{{Start: 0, End: 3, Modulus: 1e6}}}
+		}, place(FoundationItem, 0, ModulusProperty), "foundation 1 holds the member across, but the member is declared to carry axial force only"},
+		{"shear deformation on a foundation", func(m *Model) {
+			m.Segments[1].ShearDeformation, m.Segments[1].Section.ShearCoefficient, m.Segments[1].Material.Poisson = true, 5.0/6, 0.3
+			m.Foundations = []Foundation{{Start: 0.5, End: 2, Modulus: 1e6}}
+		}, place(FoundationItem, 0, ModulusProperty), "foundation 1 lies under segment 2 from x = 1.0 m to 2.0 m, which deforms in shear"},
+		{"quadratic bars on an axial foundation", func(m *Model) {
+			m.Mesh.BarOrder = QuadraticBar
+			m.Foundations = []Foundation{{Start: 0, End: 3, AxialModulus: 1e6}}
+		}, place(MeshItem, -1, BarOrderProperty), "foundation 1 holds the member along its axis, which the quadratic bar element does not take yet"},
+	})
+}
+
+// A foundation holds the rigid motions of the stretch it lies under: a
+// beam on nothing but a foundation and an axial restraint is no mechanism,
+// and of two parts joined by a hinge the one off the foundation is.
+func TestFoundationMechanisms(t *testing.T) {
+	m := groundModel(6, 1e6)
+	m.PointLoads = []PointLoad{{X: 1, Transverse: -1e3}}
+	if _, err := Solve(m); err != nil {
+		t.Errorf("a beam on a foundation: %v", err)
+	}
+	m.Foundations[0] = Foundation{Start: 3, End: 6, Modulus: 1e6}
+	m.Hinges = []Hinge{{X: 2}}
+	_, err := Solve(m)
+	var me *MechanismError
+	if !errors.As(err, &me) || !strings.Contains(me.Message, "the part from x = 0.0 m to 2.0 m can turn about x = 2.0 m") {
+		t.Errorf("a part off the foundation beyond a hinge: got %v", err)
+	}
+}
+
+// The exact solution on a foundation is read in closed form by the walk:
+// its extremes are those of the long beam under a point load (see
+// TestLongBeamOnFoundationPointLoad): the largest moment P/(4β) under the
+// load, the largest hogging moment P/(4β)·e^(−π/2) a quarter wave π/(2β)
+// either side, the largest deflection P·β/(2k) under the load (Hetényi,
+// 1946, from memory); and the comparison with the finite element solution
+// finds the largest errors a dense sampling of both finds.
+func TestFoundationWalk(t *testing.T) {
+	ei := testE * testI
+	const k, P = 6.4e6, 80e3
+	beta := math.Sqrt(math.Sqrt(k / (4 * ei)))
+	L := 42 / beta
+	m := groundModel(L, k)
+	m.PointLoads = []PointLoad{{X: L / 2, Transverse: -P}}
+	m.Mesh = MeshSettings{Elements: 300}
+	s := mustSolve(t, m)
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var mLo, mHi, wLo Point
+	mLo.Value, mHi.Value, wLo.Value = math.Inf(1), math.Inf(-1), math.Inf(1)
+	for _, v := range e.Intervals() {
+		if _, ok := v.Polynomial(QDeflection); ok {
+			t.Fatal("an exact interval on a foundation claims to be a polynomial")
+		}
+		lo, hi := v.Range(QBendingMoment)
+		if lo.Value < mLo.Value {
+			mLo = lo
+		}
+		if hi.Value > mHi.Value {
+			mHi = hi
+		}
+		if lo, _ := v.Range(QDeflection); lo.Value < wLo.Value {
+			wLo = lo
+		}
+	}
+	peak, hog, quarter := P/(4*beta), P/(4*beta)*math.Exp(-math.Pi/2), math.Pi/(2*beta)
+	if relErr(mHi.Value, peak) > 1e-9 || math.Abs(mHi.X-L/2) > 1e-9*L {
+		t.Errorf("largest exact moment %.10g at x = %.8g, want %.10g at %.8g", mHi.Value, mHi.X, peak, L/2)
+	}
+	if relErr(mLo.Value, -hog) > 1e-9 || math.Abs(math.Abs(mLo.X-L/2)-quarter) > 1e-6*L {
+		t.Errorf("largest hogging moment %.10g at x = %.8g, want %.10g at %.8g ± %.8g", mLo.Value, mLo.X, -hog, L/2, quarter)
+	}
+	if relErr(wLo.Value, -P*beta/(2*k)) > 1e-9 {
+		t.Errorf("largest deflection %.10g, want %.10g", wLo.Value, -P*beta/(2*k))
+	}
+	// Dense sampling of both solutions, 40 points an element.
+	var du, dw float64
+	for _, el := range s.Mesh.Elements {
+		for i := 0; i <= 40; i++ {
+			x := el.Start + (el.End-el.Start)*float64(i)/40
+			a, b := s.At(x, Right), e.At(x, Right)
+			du, dw = max(du, math.Abs(a.AxialDisplacement-b.AxialDisplacement)), max(dw, math.Abs(a.Deflection-b.Deflection))
+		}
+	}
+	norms := Compare(s, e)
+	if norms.MaxDeflection < dw*(1-1e-9) || norms.MaxDeflection > dw*1.01 {
+		t.Errorf("largest deflection error %.6g, dense sampling finds %.6g", norms.MaxDeflection, dw)
+	}
+	if !(norms.RelativeEnergy > 0 && norms.RelativeEnergy < 0.2 && norms.RelativeL2 > 0 && norms.RelativeL2 < 0.05) {
+		t.Errorf("error norms on 300 elements (β·h = %.2g): %+v", beta*L/300, norms)
+	}
+	// Finer, the energy error falls as h² (cubic elements: the curvature's
+	// error is of order h^(p−1), p = 3; Strang & Fix, ch. 1, from memory).
+	m.Mesh.Elements = 1200
+	finer := Compare(mustSolve(t, m), e)
+	if r := norms.RelativeEnergy / finer.RelativeEnergy; r < 14 || r > 18 {
+		t.Errorf("energy error %.3g on 300 elements, %.3g on 1,200: ratio %.3g, want about 16", norms.RelativeEnergy, finer.RelativeEnergy, r)
+	}
+}

@@ -1,0 +1,91 @@
+package fem
+
+import (
+	"fmt"
+	"math"
+	"testing"
+)
+
+// A temperature difference ΔT through the depth h curves a free member by
+// κ = α·ΔT/h (bottom warmer: sagging). Restrained at both ends (fixed–
+// fixed) the member stays straight and carries the moment M = −EI·κ along
+// its whole length, with no reactions but the end moments; simply
+// supported it carries no moment and sags by κL²/8 at midspan; a cantilever
+// turns by κL and its tip moves by κL²/2 (thermal bending of beams,
+// Roark's Formulas for Stress and Strain, beams under a linear temperature
+// gradient through the depth, from memory). FE and exact must both give
+// them.
+func TestTemperatureDifferenceThroughDepth(t *testing.T) {
+	const L, dT, depth = 6.0, 30.0, 0.3
+	kappa := testα * dT / depth
+	ei := testE * testI
+	for _, c := range []struct {
+		name     string
+		supports []Support
+		check    func(t *testing.T, name string, f Field, r []Reaction)
+	}{
+		{"fixed at both ends", []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Fixed}}, func(t *testing.T, name string, f Field, r []Reaction) {
+			for _, x := range []float64{0, 1.7, L / 2, L} {
+				g := f.At(x, Right)
+				if math.Abs(g.BendingMoment+ei*kappa) > 1e-9*ei*kappa || math.Abs(g.Deflection) > 1e-12 {
+					t.Errorf("%s at x = %g: M %.9g, w %.3g; want M = −EI·κ = %.9g and w = 0", name, x, g.BendingMoment, g.Deflection, -ei*kappa)
+				}
+			}
+			if math.Abs(r[0].Force[Transverse]) > 1e-9*ei*kappa/L || math.Abs(math.Abs(r[0].Force[Rotation])-ei*kappa) > 1e-9*ei*kappa {
+				t.Errorf("%s: reactions %v, want no force and end moments of EI·κ = %.9g", name, r[0].Force, ei*kappa)
+			}
+		}},
+		{"simply supported", []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}}, func(t *testing.T, name string, f Field, r []Reaction) {
+			g := f.At(L/2, Right)
+			if math.Abs(g.BendingMoment) > 1e-9*ei*kappa || math.Abs(g.Deflection+kappa*L*L/8) > 1e-9*kappa*L*L {
+				t.Errorf("%s at midspan: M %.3g, w %.9g; want 0 and −κL²/8 = %.9g", name, g.BendingMoment, g.Deflection, -kappa*L*L/8)
+			}
+		}},
+		{"cantilever", []Support{{X: 0, Kind: Fixed}}, func(t *testing.T, name string, f Field, r []Reaction) {
+			g := f.At(L, Left)
+			if math.Abs(g.Rotation-kappa*L) > 1e-9*kappa*L || math.Abs(g.Deflection-kappa*L*L/2) > 1e-9*kappa*L*L {
+				t.Errorf("%s at the tip: θ %.9g, w %.9g; want κL = %.9g and κL²/2 = %.9g", name, g.Rotation, g.Deflection, kappa*L, kappa*L*L/2)
+			}
+		}},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			seg := testSegment(0, L)
+			seg.Section.Depth = depth
+			seg.TemperatureDifference = dT
+			seg.Material.Density = 0
+			m := &Model{Segments: []Segment{seg}, Supports: c.supports, Mesh: MeshSettings{Elements: 12}}
+			s := mustSolve(t, m)
+			e, err := SolveExact(m)
+			if err != nil {
+				t.Fatal(err)
+			}
+			c.check(t, "FE", s, s.Reactions)
+			c.check(t, "exact", e, e.Reactions())
+		})
+	}
+}
+
+// A temperature difference on a member declared axial-only is refused at
+// the segment, and one with no depth to spread over at the depth.
+func TestTemperatureDifferenceRefused(t *testing.T) {
+	for _, c := range []struct {
+		edit  func(*Model)
+		place Place
+	}{
+		{func(m *Model) { m.AxialOnly = true; m.Segments[0].TemperatureDifference = 10 }, Place{Item: Item{Kind: SegmentItem}, Property: TemperatureDifferenceProperty}},
+		{func(m *Model) { m.Segments[0].TemperatureDifference = 10; m.Segments[0].Section.FibreDistance = 0 }, Place{Item: Item{Kind: SegmentItem}, Property: DepthProperty}},
+	} {
+		m := testModel(Support{X: 0, Kind: Fixed})
+		c.edit(m)
+		err := m.Validate()
+		found := false
+		if v, ok := err.(*ValidationError); ok {
+			for _, p := range v.Problems {
+				found = found || p.Place == c.place
+			}
+		}
+		if !found {
+			t.Errorf("%s: got %v, want a problem at %+v", fmt.Sprint(c.place.Property), err, c.place)
+		}
+	}
+}

@@ -1,0 +1,175 @@
+package fem
+
+import (
+	"fmt"
+	"math"
+	"testing"
+)
+
+// shearSegment is testSegment made a Timoshenko beam with shear area
+// ratio κ and Poisson's ratio 0.3, so G = E/2.6.
+func shearSegment(start, end, kappa float64) Segment {
+	s := testSegment(start, end)
+	s.ShearDeformation = true
+	s.Section.ShearCoefficient = kappa
+	s.Material.Poisson = 0.3
+	s.Material.Density = 0
+	return s
+}
+
+// Shear deformation adds to bending (Timoshenko beam; Gere & Goodno,
+// Mechanics of Materials, and Roark's Formulas for Stress and Strain, from
+// memory): a cantilever with a tip load P deflects PL³/(3EI) + PL/(κGA) at
+// its tip; a simply supported beam under a uniform load q deflects
+// 5qL⁴/(384EI) + qL²/(8κGA) at midspan; a beam fixed at both ends under a
+// uniform load still carries the end moments qL²/12 (the load is symmetric).
+// The interdependent interpolation element is exact at the nodes, so FE and
+// exact agree to round-off there, for stubby members (L/d = 2) and slender
+// ones alike.
+func TestShearDeformation(t *testing.T) {
+	const kappa, P, q = 5.0 / 6, -40e3, -25e3
+	ei := testE * testI
+	gka := testE / 2.6 * kappa * testA
+	for _, L := range []float64{0.6, 6} {
+		t.Run(fmt.Sprintf("L = %g m", L), func(t *testing.T) {
+			cases := []struct {
+				name     string
+				supports []Support
+				loads    func(m *Model)
+				x        float64
+				want     func(f Fields) (got, want float64, what string)
+			}{
+				{"cantilever, tip load", []Support{{X: 0, Kind: Fixed}}, func(m *Model) { m.PointLoads = []PointLoad{{X: L, Transverse: P}} }, L,
+					func(f Fields) (float64, float64, string) {
+						return f.Deflection, P*L*L*L/(3*ei) + P*L/gka, "tip deflection"
+					}},
+				{"simply supported, uniform load", []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}}, loadedUniformly(L, q), L / 2,
+					func(f Fields) (float64, float64, string) {
+						return f.Deflection, 5*q*L*L*L*L/(384*ei) + q*L*L/(8*gka), "midspan deflection"
+					}},
+				{"fixed at both ends, uniform load", []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Fixed}}, loadedUniformly(L, q), 0,
+					func(f Fields) (float64, float64, string) {
+						return f.BendingMoment, q * L * L / 12, "end moment"
+					}},
+			}
+			for _, c := range cases {
+				m := &Model{Segments: []Segment{shearSegment(0, L, kappa)}, Supports: c.supports, Mesh: MeshSettings{Elements: 8}}
+				c.loads(m)
+				s := mustSolve(t, m)
+				e, err := SolveExact(m)
+				if err != nil {
+					t.Fatal(err)
+				}
+				side := Right
+				if c.x == L {
+					side = Left
+				}
+				for name, f := range map[string]Field{"FE": s, "exact": e} {
+					got, want, what := c.want(f.At(c.x, side))
+					if what == "end moment" && name == "FE" {
+						// The FE moment is linear in an element; the end
+						// moment is the support's reaction (found by statics,
+						// a counter-clockwise reaction to a hogging moment).
+						got = -s.Reactions[0].Force[Rotation]
+					}
+					if math.Abs(got-want) > 1e-9*math.Abs(want) {
+						t.Errorf("%s, %s: %s %.12g, want %.12g", c.name, name, what, got, want)
+					}
+				}
+			}
+		})
+	}
+}
+
+// loadedUniformly puts a uniform transverse load q over [0, L] on a model.
+func loadedUniformly(L, q float64) func(*Model) {
+	return func(m *Model) {
+		m.DistributedLoad = []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, q}, {L, q}}}}
+	}
+}
+
+// The interdependent interpolation element's stiffness is its strain
+// energy: uᵀKu = ∫EI·θ′² + G·As·γ² over the element for the shape
+// functions of beamShape, with γ = w′ − θ (Gauss–Legendre quadrature,
+// exact for these quadratics); and its shear strain is constant.
+func TestTimoshenkoElementEnergy(t *testing.T) {
+	const h, g = 0.7, 0.013 // m, m²
+	d := elementData{length: h, sectionData: sectionData{flexuralRigidity: 3e6, shear: g}}
+	k := d.beamStiffness()
+	phi := d.phi(h)
+	u := [4]float64{0.003, -0.02, -0.001, 0.011}
+	var quad float64
+	for i := range 4 {
+		for j := range 4 {
+			quad += u[i] * k[i][j] * u[j]
+		}
+	}
+	energy := 0.0
+	xs, ws := []float64{0.5 - 0.5/math.Sqrt(3), 0.5 + 0.5/math.Sqrt(3)}, []float64{0.5, 0.5}
+	var gammas []float64
+	for q, xi := range xs {
+		const dx = 1e-6
+		w0, t0 := beamShape(xi-dx, h, phi)
+		w1, t1 := beamShape(xi+dx, h, phi)
+		var dw, dtheta, theta float64
+		_, tm := beamShape(xi, h, phi)
+		for a := range 4 {
+			dw += u[a] * (w1[a] - w0[a]) / (2 * dx * h)
+			dtheta += u[a] * (t1[a] - t0[a]) / (2 * dx * h)
+			theta += u[a] * tm[a]
+		}
+		gamma := dw - theta
+		gammas = append(gammas, gamma)
+		energy += ws[q] * h * (3e6*dtheta*dtheta + 3e6/g*gamma*gamma)
+	}
+	if math.Abs(quad-energy) > 1e-6*math.Abs(quad) {
+		t.Errorf("uᵀKu = %.9g, ∫EI·θ′² + G·As·γ² = %.9g", quad, energy)
+	}
+	if math.Abs(gammas[0]-gammas[1]) > 1e-6*math.Abs(gammas[0]) {
+		t.Errorf("shear strain %.9g and %.9g along the element: not constant", gammas[0], gammas[1])
+	}
+}
+
+// The interdependent interpolation element, like the Hermite one for an
+// Euler–Bernoulli beam, gives the exact nodal displacements for the loads
+// Stave supports (nodal exactness of elements whose shape functions solve
+// the homogeneous equations, Tong 1969, from memory): on a member mixing
+// Timoshenko and Euler–Bernoulli segments, springs, settlements, point
+// loads, a hinge and piecewise-linear loads, every node's w and θ equal the
+// exact solution's, on a uniform and a graded mesh.
+func TestShearNodalExactness(t *testing.T) {
+	m := mixedModel(37)
+	m.Segments[1].ShearDeformation = true
+	m.Segments[1].Section.ShearArea = 2e-3
+	m.Segments[1].Material.ShearModulus = 20e9 // a soft web: large shear deflection
+	m.Segments[2].ShearDeformation = true
+	m.Segments[2].Section.ShearCoefficient = 0.4
+	m.Hinges = []Hinge{{X: 6.3, Stiffness: 2e6}}
+	s := mustSolve(t, m)
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var big [3]float64
+	for _, d := range s.Displacement {
+		for k := range big {
+			big[k] = max(big[k], math.Abs(d[k]))
+		}
+	}
+	for i, x := range s.Mesh.X {
+		side := Left
+		if i == 0 {
+			side = Right
+		}
+		g := e.At(x, side)
+		for k, v := range [3]float64{g.AxialDisplacement, g.Deflection, g.Rotation} {
+			got := s.Displacement[i][k]
+			if k == int(Rotation) && side == Left {
+				got = s.At(x, Left).Rotation
+			}
+			if math.Abs(got-v) > 1e-9*big[k] {
+				t.Fatalf("node %d (x = %.4g m), %s: FE %.12g, exact %.12g", i, x, Dof(k), got, v)
+			}
+		}
+	}
+}
