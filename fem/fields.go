@@ -138,40 +138,41 @@ func fibreSign(a, b float64) float64 {
 // cancellation on fine meshes), and InElement's values at both ends.
 // Coefficients beyond the degrees of v.degree are left as they are (zero).
 func (s *Solution) elementInterval(e int, v *Interval) {
-	el := s.Mesh.Elements[e]
+	el := &s.Mesh.Elements[e]
 	sec := &s.sections[el.Segment]
 	h := el.End - el.Start
-	a, _ := s.ends(e)
-	g := s.fields[e]
+	a, b := &s.Displacement[e], &s.Displacement[e+1]
+	startRotation := a[Rotation]
+	if s.releasedStart != nil {
+		if r, ok := s.releasedStart[e]; ok {
+			startRotation = r
+		}
+	}
+	g := &s.fields[e]
 	v.Start, v.Length = el.Start, h
 	v.solution, v.element = s, e
 	p := &v.poly
-	p[QAxialDisplacement][0] = a[Axial]
-	p[QAxialDisplacement][1] = s.Displacement[e+1][Axial] - a[Axial] + 4*g.bubble
-	p[QAxialDisplacement][2] = -4 * g.bubble
-	p[QDeflection][0] = a[Transverse]
-	p[QDeflection][1] = h * (a[Rotation] - sec.shear*g.third) // w′ = θ − g·θ″
-	p[QDeflection][2] = h * h * g.curvature / 2
-	p[QDeflection][3] = h * h * h * g.third / 6
-	p[QRotation][0] = a[Rotation]
-	p[QRotation][1] = h * g.curvature
-	p[QRotation][2] = h * h * g.third / 2
+	ea, ei := sec.axialRigidity, sec.flexuralRigidity
 	// The constant terms as fieldsAt computes them at ξ = 0, to the bit.
-	p[QAxialForce][0] = sec.axialRigidity * (g.slope + 4*g.bubble/h - sec.thermalStrain)
-	p[QAxialForce][1] = -8 * sec.axialRigidity * g.bubble / h
-	p[QShearForce][0] = sec.flexuralRigidity * g.third
-	p[QBendingMoment][0] = sec.flexuralRigidity * (g.curvature - sec.thermalCurvature)
-	p[QBendingMoment][1] = sec.flexuralRigidity * g.third * h
+	n0 := ea * (g.slope + 4*g.bubble/h - sec.thermalStrain)
+	m0 := ei * (g.curvature - sec.thermalCurvature)
+	shear := ei * g.third
+	u, w, r := &p[QAxialDisplacement], &p[QDeflection], &p[QRotation]
+	u[0], u[1], u[2] = a[Axial], b[Axial]-a[Axial]+4*g.bubble, -4*g.bubble
+	w[0], w[1] = a[Transverse], h*(startRotation-sec.shear*g.third) // w′ = θ − g·θ″
+	w[2], w[3] = h*h*g.curvature/2, h*h*h*g.third/6
+	r[0], r[1], r[2] = startRotation, h*g.curvature, h*h*g.third/2
+	p[QAxialForce][0], p[QAxialForce][1] = n0, -8*ea*g.bubble/h
+	p[QShearForce][0] = shear
+	p[QBendingMoment][0], p[QBendingMoment][1] = m0, ei*g.third*h
 	// The ends, as fieldsAt computes them at ξ = 0 and 1 (to the bit, but
 	// for the sign of a zero): the displacements are the nodal ones.
-	b := s.Displacement[e+1]
 	start, end := &v.ends[0], &v.ends[1]
-	*start = Fields{X: el.Start, AxialDisplacement: a[Axial], Deflection: a[Transverse], Rotation: a[Rotation],
-		AxialForce: p[QAxialForce][0], ShearForce: p[QShearForce][0], BendingMoment: p[QBendingMoment][0]}
-	*end = Fields{X: el.Start + h, AxialDisplacement: b[Axial], Deflection: b[Transverse], Rotation: b[Rotation],
-		AxialForce:    sec.axialRigidity * (g.slope + -4*g.bubble/h - sec.thermalStrain),
-		ShearForce:    p[QShearForce][0],
-		BendingMoment: sec.flexuralRigidity * (g.curvature + g.third*h - sec.thermalCurvature)}
+	start.X, start.AxialDisplacement, start.Deflection, start.Rotation = el.Start, a[Axial], a[Transverse], startRotation
+	start.AxialForce, start.ShearForce, start.BendingMoment = n0, shear, m0
+	end.X, end.AxialDisplacement, end.Deflection, end.Rotation = el.Start+h, b[Axial], b[Transverse], b[Rotation]
+	end.AxialForce = ea * (g.slope + -4*g.bubble/h - sec.thermalStrain)
+	end.ShearForce, end.BendingMoment = shear, ei*(g.curvature+g.third*h-sec.thermalCurvature)
 	sec.stresses(start)
 	sec.stresses(end)
 	// The stresses' constant terms are the start's; their slopes follow
@@ -179,6 +180,7 @@ func (s *Solution) elementInterval(e int, v *Interval) {
 	p[QAxialStress][0], p[QAxialStress][1] = start.AxialStress, end.AxialStress-start.AxialStress
 	p[QBendingStress][0], p[QBendingStress][1] = start.BendingStress, end.BendingStress-start.BendingStress
 	v.endsKnown, v.known = true, 0
+	v.oneFibre = v.degree[QAxialStress] <= 1 && v.degree[QBendingStress] <= 1 && oneFibre(&p[QAxialStress], &p[QBendingStress])
 }
 
 // Varies says how quantity q varies inside the elements of s, as the

@@ -249,12 +249,16 @@ func (e *extremum) most(xi, v float64) {
 }
 
 // MaxAbsBound bounds |p| on [0, 1] from above, cheaply: by the largest
-// magnitude of its coefficients in the Bernstein basis of degree 5, whose
+// magnitude of its coefficients in the Bernstein basis of degree 5 (of
+// degree 3 for a cubic, a tighter bound), whose
 // convex hull holds p (Farin, Curves and Surfaces for CAGD, ch. 5, from
 // memory). The bound is reached at the ends and is within a small factor of
 // the maximum inside, so a search for a largest value can skip the
 // intervals whose bound does not beat the largest so far.
 func (p *Polynomial) MaxAbsBound() float64 {
+	if p[4] == 0 && p[5] == 0 {
+		return cubicBound(p) // tighter, and cheaper: a walk asks for it per element
+	}
 	// b_i = Σ_{k ≤ i} C(i, k)/C(5, k)·p_k.
 	c1, c2, c3, c4 := p[1]/5, p[2]/10, p[3]/10, p[4]/5
 	b0, b1, b2 := p[0], p[0]+c1, p[0]+2*c1+c2
@@ -270,9 +274,10 @@ type gaussPoint struct{ xi, w float64 }
 
 // The Gauss–Legendre rules the error integrals use: n points integrate
 // polynomials of degree 2n − 1 exactly on [0, 1] (gonum's quad.Legendre).
+// Arrays, not slices: the hot loops over them carry no bounds checks.
 var (
-	gauss4 = legendre(4) // degree 7: the square of a cubic
-	gauss6 = legendre(6) // degree 11: the square of a quintic
+	gauss4 = [4]gaussPoint(legendre(4)) // degree 7: the square of a cubic
+	gauss6 = [6]gaussPoint(legendre(6)) // degree 11: the square of a quintic
 )
 
 func legendre(n int) []gaussPoint {
@@ -283,4 +288,197 @@ func legendre(n int) []gaussPoint {
 		out[i] = gaussPoint{xs[i], ws[i]}
 	}
 	return out
+}
+
+// cubicBound bounds |p| on [0, 1] from above for p of degree 3 at most, by
+// its Bernstein coefficients of degree 3 (see MaxAbsBound).
+func cubicBound(p *Polynomial) float64 {
+	b1 := p[0] + p[1]*(1.0/3)
+	b2 := b1 + (p[1]+p[2])*(1.0/3)
+	b3 := p[0] + p[1] + p[2] + p[3]
+	return larger(larger(math.Abs(p[0]), math.Abs(b1)), larger(math.Abs(b2), math.Abs(b3)))
+}
+
+// larger is the larger of a and b, for bounds in hot loops: cheaper than
+// max, which also orders zeros by sign and passes NaN on.
+func larger(a, b float64) float64 {
+	if a > b {
+		return a
+	}
+	return b
+}
+
+// quinticShare is the largest size of the smaller part of a quintic (see
+// maxAbsBeyond), relative to the larger, at which its extremes are taken
+// from the larger part's, polished by Newton's method.
+const quinticShare = 1e-2
+
+// maxAbsBeyond returns the larger of best and the largest |p| on [0, 1], p
+// of degree 5 at most, without a search where it can. Any such p is
+// p(0) + V + B: V + p(0) = H, the cubic with p's values and slopes at both
+// ends (Hermite interpolation), and B = ξ²(1−ξ)²·(α + βξ), α = p4 + 2·p5,
+// β = p5. On the elements of a fine mesh one of V and B varies much more
+// than the other: B, the error of a Hermite element, where the mesh is
+// coarse enough for it to outweigh round-off at the nodes, V where it is
+// not. Each part's extremes are in closed form (the roots of a quadratic),
+// and p's lie near the larger part's. With m the largest |p| at the ends
+// and at the larger part's extremes, and s a bound of the smaller part,
+// max |p| ≤ m + 2s: the element is skipped where m + 2s ≤ best. Where the
+// smaller part is within quinticShare of the larger, or where V is no
+// larger than noise, the round-off of p's nodal values (p being a
+// difference of two fields of size noise/ε on the element), p's extremes
+// are taken at both parts' extremes polished by Newton steps on p′: the
+// error then falls with the square of the share, or stays within the
+// noise (TestMaxAbsBeyond checks it against a search). Otherwise they are
+// searched for (maxAbs).
+func maxAbsBeyond(p *Polynomial, best, noise float64) float64 {
+	if p[4] == 0 && p[5] == 0 {
+		if cubicBound(p) <= best {
+			return best
+		}
+		return max(best, maxAbs(p, 3).value)
+	}
+	if p.MaxAbsBound() <= best {
+		return best
+	}
+	beta := p[5]
+	alpha := p[4] + 2*beta
+	end := p.At(1)
+	endSlope := p[1] + 2*p[2] + 3*p[3] + 4*p[4] + 5*p[5]
+	// The Hermite functions on [0, 1]: N3 = 1 − N1 ∈ [0, 1], |N2| and |N4|
+	// at most 4/27; and ξ²(1−ξ)² ≤ 1/16.
+	vBound := math.Abs(end-p[0]) + 4.0/27*(math.Abs(p[1])+math.Abs(endSlope))
+	bBound := max(math.Abs(alpha), math.Abs(alpha+beta)) / 16
+	// B' = ξ(1−ξ)·(2α + (3β − 4α)·ξ − 5β·ξ²); H' = p1 + 2·h2·ξ + 3·h3·ξ²
+	// with h2, h3 the coefficients of H. Their real roots, brought into
+	// [0, 1]: p' may have a root inside near one just outside.
+	var rb, rh [2]float64
+	nb := realRoots(-5*beta, 3*beta-4*alpha, 2*alpha, &rb)
+	nh := realRoots(3*(p[3]-beta+2*alpha), 2*(p[2]-alpha), p[1], &rh)
+	found := max(math.Abs(p[0]), math.Abs(end))
+	larger, slack, share := rb[:nb], vBound, vBound/bBound
+	if vBound > bBound {
+		larger, slack, share = rh[:nh], bBound, bBound/vBound
+	}
+	for _, xi := range larger {
+		found = max(found, math.Abs(p.At(xi)))
+	}
+	switch {
+	case found+2*slack <= best:
+		return best
+	case share > quinticShare && vBound > noise:
+		return max(best, maxAbs(p, 5).value)
+	}
+	dp := p.Derivative()
+	ddp := dp.Derivative()
+	for _, xi := range append(rb[:nb:nb], rh[:nh]...) {
+		found = max(found, math.Abs(p.At(newtonTurn(&dp, &ddp, xi))))
+	}
+	return max(best, found)
+}
+
+// Where a finite element field agrees with the exact one at the nodes (in
+// one dimension with consistent loads its nodal values are exact, Strang &
+// Fix, An Analysis of the Finite Element Method, ch. 1, from memory), the
+// error on an element is a bubble: for the Hermite deflection p =
+// ξ²(1−ξ)²·(α + βξ), values and slopes vanishing at both ends; for the
+// bar's displacement p = ξ(1−ξ)·(a + bξ), values vanishing. Their largest
+// magnitude and the integral of their square are then in closed form.
+
+// hermiteBubble returns α and β of p = ξ²(1−ξ)²·(α + βξ), p of degree 5 at
+// most, when p's values and slopes at both ends are within noise of zero;
+// false otherwise.
+func hermiteBubble(p *Polynomial, noise float64) (alpha, beta float64, ok bool) {
+	end := p[0] + p[1] + p[2] + p[3] + p[4] + p[5]
+	endSlope := p[1] + 2*p[2] + 3*p[3] + 4*p[4] + 5*p[5]
+	if !(math.Abs(p[0]) <= noise && math.Abs(p[1]) <= noise && math.Abs(end) <= noise && math.Abs(endSlope) <= noise) {
+		return 0, 0, false
+	}
+	return p[4] + 2*p[5], p[5], true
+}
+
+// hermiteBubbleMax is the largest |ξ²(1−ξ)²·(α + βξ)| on [0, 1]: at a root
+// of 2α + (3β − 4α)·ξ − 5β·ξ², where its derivative
+// ξ(1−ξ)·(2α + (3β − 4α)·ξ − 5β·ξ²) vanishes inside.
+func hermiteBubbleMax(alpha, beta float64) float64 {
+	var r [2]float64
+	largest := 0.0
+	for _, xi := range r[:realRoots(-5*beta, 3*beta-4*alpha, 2*alpha, &r)] {
+		s := xi * (1 - xi)
+		largest = larger(largest, math.Abs(s*s*(alpha+beta*xi)))
+	}
+	return largest
+}
+
+// hermiteBubbleSquare is ∫₀¹ (ξ²(1−ξ)²·(α + βξ))² dξ =
+// α²·B(5,5) + 2αβ·B(6,5) + β²·B(7,5), B the beta function.
+func hermiteBubbleSquare(alpha, beta float64) float64 {
+	return alpha*alpha/630 + alpha*beta/630 + beta*beta/2310
+}
+
+// linearBubble returns a and b of p = ξ(1−ξ)·(a + bξ), p of degree 3 at
+// most, when p's values at both ends are within noise of zero; false
+// otherwise.
+func linearBubble(p *Polynomial, noise float64) (a, b float64, ok bool) {
+	if !(math.Abs(p[0]) <= noise && math.Abs(p[0]+p[1]+p[2]+p[3]) <= noise) {
+		return 0, 0, false
+	}
+	return -p[2] - p[3], -p[3], true
+}
+
+// linearBubbleMax is the largest |ξ(1−ξ)·(a + bξ)| on [0, 1]: at a root of
+// its derivative a + 2(b − a)·ξ − 3b·ξ².
+func linearBubbleMax(a, b float64) float64 {
+	var r [2]float64
+	largest := 0.0
+	for _, xi := range r[:realRoots(-3*b, 2*(b-a), a, &r)] {
+		largest = larger(largest, math.Abs(xi*(1-xi)*(a+b*xi)))
+	}
+	return largest
+}
+
+// linearBubbleSquare is ∫₀¹ (ξ(1−ξ)·(a + bξ))² dξ =
+// a²·B(3,3) + 2ab·B(4,3) + b²·B(5,3).
+func linearBubbleSquare(a, b float64) float64 {
+	return a*a/30 + a*b/30 + b*b/105
+}
+
+// realRoots writes the real roots of a·ξ² + b·ξ + c, clamped to [0, 1],
+// to r and returns how many there are; a and b may be zero.
+func realRoots(a, b, c float64, r *[2]float64) int {
+	switch {
+	case a != 0:
+		disc := b*b - 4*a*c
+		if disc < 0 {
+			return 0
+		}
+		q := -0.5 * (b + math.Copysign(math.Sqrt(disc), b))
+		if q == 0 {
+			r[0] = 0 // a double root at 0
+			return 1
+		}
+		r[0], r[1] = min(max(q/a, 0), 1), min(max(c/q, 0), 1)
+		return 2
+	case b != 0:
+		r[0] = min(max(-c/b, 0), 1)
+		return 1
+	}
+	return 0
+}
+
+// newtonTurn is xi moved by up to three Newton steps towards a root of dp
+// (the derivative of a quintic; ddp its own), staying inside (0, 1).
+func newtonTurn(dp, ddp *Polynomial, xi float64) float64 {
+	for range 3 {
+		step := dp.at(4, xi) / ddp.at(3, xi)
+		next := xi - step
+		if !(next > 0 && next < 1) {
+			break
+		}
+		xi = next
+		if math.Abs(step) <= 0x1p-40 {
+			break
+		}
+	}
+	return xi
 }

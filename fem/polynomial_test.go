@@ -134,7 +134,7 @@ func TestGaussRulesExact(t *testing.T) {
 	for _, c := range []struct {
 		rule   []gaussPoint
 		degree int
-	}{{gauss4, 7}, {gauss6, 11}} {
+	}{{gauss4[:], 7}, {gauss6[:], 11}} {
 		for k := 0; k <= c.degree; k++ {
 			sum := 0.0
 			for _, q := range c.rule {
@@ -144,5 +144,102 @@ func TestGaussRulesExact(t *testing.T) {
 				t.Errorf("%d points, x^%d: %.17g, want %.17g", len(c.rule), k, sum, 1/float64(k+1))
 			}
 		}
+	}
+}
+
+// hermitePlusBubble is H + B with H the cubic of end values and slopes
+// (w0, s0) and (w1, s1) in ξ, and B = ξ²(1−ξ)²·(α + βξ).
+func hermitePlusBubble(w0, s0, w1, s1, alpha, beta float64) Polynomial {
+	// Hermite cubic in the monomial basis.
+	h := Polynomial{w0, s0, -3*w0 - 2*s0 + 3*w1 - s1, 2*w0 + s0 - 2*w1 + s1}
+	return Polynomial{h[0], h[1], h[2] + alpha, h[3] + beta - 2*alpha, alpha - 2*beta, beta}
+}
+
+// maxAbsBeyond gives the largest |p| on [0, 1], or best if larger, as the
+// search of maxAbs finds it: to 1e-9 where either part of p (see
+// maxAbsBeyond) outweighs the other, and within the noise it is given
+// where the Hermite part is noise. Drawn the way a comparison meets them:
+// an element error ξ²(1−ξ)²·(α + βξ) and nodal round-off of every relative
+// size, cubics, and random quintics.
+func TestMaxAbsBeyond(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(3, 5))
+	signed := func() float64 { return 2*rnd.Float64() - 1 }
+	for i := range 20000 {
+		var p Polynomial
+		noise := 0.0
+		switch i % 4 {
+		case 0, 1: // element error plus nodal differences from 1e-16 to 1e2 of it, noise or not
+			size := math.Pow(10, -16+18*rnd.Float64())
+			p = hermitePlusBubble(size*signed(), size*signed(), size*signed(), size*signed(), signed(), 0.3*signed())
+			if i%4 == 0 {
+				noise = 16 * size
+			}
+		case 2: // a cubic
+			p = Polynomial{signed(), signed(), signed(), signed()}
+		default:
+			p, _ = randomPolynomial(rnd)
+		}
+		best := 0.0
+		if i%3 == 0 {
+			best = maxAbs(&p, 5).value * (0.5 + rnd.Float64())
+		}
+		want := max(best, maxAbs(&p, 5).value)
+		got := maxAbsBeyond(&p, best, noise)
+		if math.Abs(got-want) > 1e-9*want+2*noise {
+			t.Errorf("polynomial %d %v, best %g, noise %g: %.17g, want %.17g", i, p, best, noise, got, want)
+		}
+	}
+}
+
+// The bubbles' largest magnitude and the integral of their square in
+// closed form agree with the search of maxAbs and with Gauss–Legendre
+// quadrature of the same polynomials expanded; a polynomial that does not
+// vanish at the ends beyond the noise is refused.
+func TestBubbles(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(9, 1))
+	square := func(p *Polynomial) float64 {
+		sum := 0.0
+		for _, q := range &gauss6 {
+			v := p.At(q.xi)
+			sum += q.w * v * v
+		}
+		return sum
+	}
+	for i := range 2000 {
+		a, b := 2*rnd.Float64()-1, 2*rnd.Float64()-1
+		if i%5 == 0 {
+			b = 0 // a uniform load
+		}
+		h := hermitePlusBubble(0, 0, 0, 0, a, b)
+		alpha, beta, ok := hermiteBubble(&h, 1e-14)
+		if !ok || math.Abs(alpha-a) > 1e-15 || math.Abs(beta-b) > 1e-15 {
+			t.Fatalf("hermiteBubble of %v: %g, %g, %v; want %g, %g", h, alpha, beta, ok, a, b)
+		}
+		if got, want := hermiteBubbleMax(a, b), maxAbs(&h, 5).value; math.Abs(got-want) > 1e-13*want {
+			t.Errorf("Hermite bubble %g, %g: largest %.17g, want %.17g", a, b, got, want)
+		}
+		if got, want := hermiteBubbleSquare(a, b), square(&h); math.Abs(got-want) > 1e-13*want {
+			t.Errorf("Hermite bubble %g, %g: square %.17g, want %.17g", a, b, got, want)
+		}
+		// ξ(1−ξ)(a + bξ) = aξ + (b − a)ξ² − bξ³.
+		l := Polynomial{0, a, b - a, -b}
+		la, lb, ok := linearBubble(&l, 1e-14)
+		if !ok || math.Abs(la-a) > 1e-15 || math.Abs(lb-b) > 1e-15 {
+			t.Fatalf("linearBubble of %v: %g, %g, %v; want %g, %g", l, la, lb, ok, a, b)
+		}
+		if got, want := linearBubbleMax(a, b), maxAbs(&l, 3).value; math.Abs(got-want) > 1e-13*want {
+			t.Errorf("linear bubble %g, %g: largest %.17g, want %.17g", a, b, got, want)
+		}
+		if got, want := linearBubbleSquare(a, b), square(&l); math.Abs(got-want) > 1e-13*want {
+			t.Errorf("linear bubble %g, %g: square %.17g, want %.17g", a, b, got, want)
+		}
+	}
+	off := hermitePlusBubble(1e-9, 0, 0, 0, 1, 0)
+	if _, _, ok := hermiteBubble(&off, 1e-12); ok {
+		t.Error("hermiteBubble took a polynomial whose end value is beyond the noise")
+	}
+	line := Polynomial{0, 1, -1 + 1e-9}
+	if _, _, ok := linearBubble(&line, 1e-12); ok {
+		t.Error("linearBubble took a polynomial whose end value is beyond the noise")
 	}
 }

@@ -136,19 +136,59 @@ func newExtremes() *extremes {
 func (x *extremes) Visit(v *ElementView) {
 	x.seen = true
 	fe := &v.FE
-	start, end := fe.End(0).values(), fe.End(1).values()
+	a, b := fe.End(0).values(), fe.End(1).values()
 	x0, x1 := fe.Start, fe.Start+fe.Length
-	for q := range Quantity(quantityCount) {
-		if q < QCombinedStress && !turnsInside(&fe.poly[q], fe.degree[q]) {
-			// Monotone (linear, say): the ends, start first, as Range would
-			// give them; read here without its bookkeeping.
-			x.take(q, Point{x0, start[q]}, Point{x0, start[q]})
-			x.take(q, Point{x1, end[q]}, Point{x1, end[q]})
-			continue
+	for q := range Quantity(polynomialQuantities) {
+		// Where no value inside can go beyond the extremes so far (a
+		// quantity that is linear, say), the ends, as Range would give them.
+		if fe.degree[q] >= 2 && x.insideBeyond(q, fe, a[q], b[q]) {
+			lo, hi := fe.Range(q)
+			x.take(q, lo, hi)
+		} else {
+			x.ends(q, x0, a[q], x1, b[q])
 		}
-		lo, hi := fe.Range(q)
-		x.take(q, lo, hi)
 	}
+	// Range, kept by the interval for the walk's other visitors.
+	lo, hi := fe.Range(QCombinedStress)
+	x.take(QCombinedStress, lo, hi)
+}
+
+// ends takes the values a at x0 and b at x1 of q, the first winning a tie.
+func (x *extremes) ends(q Quantity, x0, a, x1, b float64) {
+	lo, hi := &x.lo[q], &x.hi[q]
+	if a < lo.Value {
+		*lo = Point{x0, a}
+	}
+	if a > hi.Value {
+		*hi = Point{x0, a}
+	}
+	if b < lo.Value {
+		*lo = Point{x1, b}
+	}
+	if b > hi.Value {
+		*hi = Point{x1, b}
+	}
+}
+
+// insideBeyond reports whether a value inside fe of polynomial quantity q,
+// of degree 2 or more and valued a and b at the ends, may lie beyond the
+// extremes so far or the ends: not where the polynomial's Bernstein
+// coefficients, whose hull holds it, lie within them (strictly within the
+// ends, which Range would not prefer to a value inside on a tie).
+func (x *extremes) insideBeyond(q Quantity, fe *Interval, a, b float64) bool {
+	p := &fe.poly[q]
+	lo, hi := x.lo[q].Value, x.hi[q].Value
+	beyond := func(c float64) bool {
+		return c < lo && c <= min(a, b) || c > hi && c >= max(a, b)
+	}
+	switch fe.degree[q] {
+	case 2:
+		return beyond(p[0] + p[1]/2)
+	case 3:
+		b1 := p[0] + p[1]*(1.0/3)
+		return beyond(b1) || beyond(b1+(p[1]+p[2])*(1.0/3))
+	}
+	return true
 }
 
 // take keeps lo and hi where they are beyond the extremes of q so far.

@@ -13,10 +13,12 @@ import (
 // most). A walk hands each element to its consumers as an ElementView: both
 // solutions on the element as polynomials in the element's own coordinate,
 // so extremes come from the roots of derivatives and error norms from
-// Gauss–Legendre rules exact for the degrees involved, with no search and
-// no sampling. Consumers are Visitors (the summary's extremes, the error
-// comparison, the checks' probes) or range over Solution.Elements (the
-// drawing's pixel columns, the CSV rows).
+// closed forms (the element errors are bubbles where the nodal values
+// agree) or Gauss–Legendre rules exact for the degrees involved, with no
+// sampling; bounds skip what cannot change a result. Consumers are
+// Visitors (the summary's extremes, the error comparison, the checks'
+// probes) or range over Solution.Elements (the drawing's pixel columns,
+// the CSV rows).
 
 // Interval is one interval of the member, an element or a stretch of the
 // exact solution between key points, with every result quantity on it as a
@@ -29,8 +31,11 @@ type Interval struct {
 	// asked for unless endsKnown.
 	ends      [2]Fields
 	endsKnown bool
-	poly      [polynomialQuantities]Polynomial
-	degree    [polynomialQuantities]int
+	// oneFibre says the combined stress is one linear polynomial on the
+	// interval (see oneFibre); false where it may not be.
+	oneFibre bool
+	poly     [polynomialQuantities]Polynomial
+	degree   [polynomialQuantities]int
 	// solution and element name the element of a finite element solution
 	// the interval is, whose own interpolation At evaluates; nil for the
 	// exact solution.
@@ -115,23 +120,45 @@ func (v *Interval) Range(q Quantity) (lo, hi Point) {
 	}
 	r := &v.ranges[q]
 	if v.known&(1<<q) == 0 {
-		switch {
-		case v.closed.stretch != nil:
-			r[0], r[1] = v.closedRange(q)
-		case q == QCombinedStress:
-			r[0], r[1] = v.combinedRange()
-		case !turnsInside(&v.poly[q], v.degree[q]):
-			// Monotone: the ends.
-			a, b := q.Of(v.End(0)), q.Of(v.End(1))
-			r[0], r[1] = extremum{0, a}, extremum{0, a}
-			r[0].least(1, b)
-			r[1].most(1, b)
-		default:
-			r[0], r[1] = rangeOn(&v.poly[q], v.degree[q], q.Of(v.End(0)), q.Of(v.End(1)))
-		}
+		v.rangeOf(q, r)
 		v.known |= 1 << q
 	}
 	return Point{v.X(r[0].xi), r[0].value}, Point{v.X(r[1].xi), r[1].value}
+}
+
+// rangeOf works out Range of q into r.
+func (v *Interval) rangeOf(q Quantity, r *[2]extremum) {
+	switch {
+	case v.closed.stretch != nil:
+		r[0], r[1] = v.closedRange(q)
+	case q == QCombinedStress && v.oneFibre:
+		r[0], r[1] = endsRange(v.End(0).CombinedStress, v.End(1).CombinedStress)
+	case q == QCombinedStress:
+		r[0], r[1] = v.combinedRange()
+	case v.degree[q] <= 1 || !turnsInside(&v.poly[q], v.degree[q]):
+		// Monotone: the ends.
+		r[0], r[1] = endsRange(q.Of(v.End(0)), q.Of(v.End(1)))
+	default:
+		r[0], r[1] = rangeOn(&v.poly[q], v.degree[q], q.Of(v.End(0)), q.Of(v.End(1)))
+	}
+}
+
+// endsRange is the range of a quantity that does not turn inside an
+// interval, a at its start and b at its end; the start wins a tie.
+func endsRange(a, b float64) (lo, hi extremum) {
+	lo, hi = extremum{0, a}, extremum{0, a}
+	lo.least(1, b)
+	hi.most(1, b)
+	return lo, hi
+}
+
+// oneFibre reports whether the combined stress of linear axial and
+// bending stresses a and b is one linear polynomial, the larger fibre the
+// same throughout: pieces.splitLinearFibres would not cut.
+func oneFibre(a, b *Polynomial) bool {
+	a1, b1 := a[0]+a[1], b[0]+b[1]
+	return (b[0] < 0) == (b1 < 0) && (a[0] < 0) == (a1 < 0) &&
+		min(math.Abs(a[0]), math.Abs(a1)) > fibreTie*max(math.Abs(b[0]), math.Abs(b1))
 }
 
 // endsFromPolynomials sets the ends to the polynomials' values at ξ = 0 (their
@@ -335,6 +362,10 @@ type ElementView struct {
 	// Exact is the exact solution on the element when HasExact.
 	Exact    Interval
 	HasExact bool
+	// exactSize is the sums of the magnitudes of the coefficients of u and
+	// w of the exact stretch holding the element (m): the scale of their
+	// round-off.
+	exactSize [2]float64
 }
 
 // walker fills the view of each element in turn.
@@ -351,6 +382,7 @@ func newWalker(s *Solution, e *Exact) *walker {
 		w.exact = e
 		w.view.HasExact = true
 		w.view.Exact.degree = exactDegrees
+		w.view.exactSize = e.stretches[0].sizes()
 	}
 	w.view.FE.degree = s.degrees()
 	return w
@@ -375,6 +407,7 @@ func (w *walker) exactOn(v *ElementView) {
 	mid := v.Start + (v.End-v.Start)/2
 	if w.stretch+1 < len(st) && st[w.stretch+1].start <= mid {
 		w.stretch = sort.Search(len(st), func(j int) bool { return st[j].start > mid }) - 1
+		v.exactSize = st[w.stretch].sizes()
 	}
 	s := &st[w.stretch]
 	t0 := (v.Start - s.start) / s.length
@@ -382,6 +415,18 @@ func (w *walker) exactOn(v *ElementView) {
 		t0 = 0
 	}
 	s.interval(t0, (v.End-v.Start)/s.length, v.Start, v.End-v.Start, &v.Exact)
+}
+
+// sizes are the sums of the magnitudes of the stretch's coefficients of u
+// and w, m: the scale of round-off in their values (ElementView.exactSize).
+func (s *exactStretch) sizes() [2]float64 {
+	var out [2]float64
+	for i, c := range [2][]float64{s.bar.coeff, s.beam.coeff} {
+		for _, v := range c {
+			out[i] += math.Abs(v)
+		}
+	}
+	return out
 }
 
 // exactDegrees are the degrees of the exact fields on a stretch under a
@@ -396,46 +441,51 @@ var exactDegrees = [polynomialQuantities]int{
 // stretch, an interval starting at start (m) of length h (m): u and w
 // shifted to t0 (repeated synthetic division, Knuth, TAOCP vol. 2, 4.6.4,
 // from memory) and scaled to the interval, the rest their derivatives.
+// The coefficients are written one by one: a walk calls this for every
+// element.
 func (s *exactStretch) interval(t0, scale, start, h float64, v *Interval) {
 	if !s.polynomial() {
 		v.setClosed(s, t0, scale, start, h)
 		return
 	}
 	v.closed.stretch = nil
-	var u, w Polynomial
-	copy(u[:], s.bar.coeff)
-	copy(w[:], s.beam.coeff)
-	taylorShift(&u, t0, scale)
-	taylorShift(&w, t0, scale)
+	p := &v.poly
+	u, w := &p[QAxialDisplacement], &p[QDeflection]
+	c, d := s.bar.coeff[:4:4], s.beam.coeff[:6:6]
+	u[0], u[1], u[2], u[3] = c[0], c[1], c[2], c[3]
+	w[0], w[1], w[2], w[3], w[4], w[5] = d[0], d[1], d[2], d[3], d[4], d[5]
+	cubicTaylorShift(u, t0, scale)
+	taylorShift(w, t0, scale)
 	ih := 1 / h
 	ea, ei := s.bar.stiffness*ih, s.beam.stiffness*ih*ih
 	ia, ci := 1/s.area, s.fibre/s.secondMoment
-	p := &v.poly
-	p[QAxialDisplacement], p[QDeflection] = u, w
-	p[QRotation] = Polynomial{w[1] * ih, 2 * w[2] * ih, 3 * w[3] * ih, 4 * w[4] * ih, 5 * w[5] * ih}
-	p[QAxialForce] = Polynomial{ea*u[1] + s.bar.offset, 2 * ea * u[2], 3 * ea * u[3]}
-	p[QShearForce] = Polynomial{6 * ei * ih * w[3], 24 * ei * ih * w[4], 60 * ei * ih * w[5]}
-	p[QBendingMoment] = Polynomial{2*ei*w[2] + s.beam.offset, 6 * ei * w[3], 12 * ei * w[4], 20 * ei * w[5]}
+	r := &p[QRotation]
+	r[0], r[1], r[2], r[3], r[4] = w[1]*ih, 2*w[2]*ih, 3*w[3]*ih, 4*w[4]*ih, 5*w[5]*ih
+	n := &p[QAxialForce]
+	n[0], n[1], n[2] = ea*u[1]+s.bar.offset, 2*ea*u[2], 3*ea*u[3]
+	vs := &p[QShearForce]
+	vs[0], vs[1], vs[2] = 6*ei*ih*w[3], 24*ei*ih*w[4], 60*ei*ih*w[5]
+	m := &p[QBendingMoment]
+	m[0], m[1], m[2], m[3] = 2*ei*w[2]+s.beam.offset, 6*ei*w[3], 12*ei*w[4], 20*ei*w[5]
 	if g := s.shear; g != 0 {
 		// Shear deformation (exactStretch.shearTerms): θ gains g·w‴ and a
 		// constant, M gains g·q (linear in ξ), V gains g·q′.
 		rot, m0, v := s.shearTerms(t0)
 		_, m1, _ := s.shearTerms(t0 + scale)
 		third := g * ih * ih * ih
-		r := &p[QRotation]
 		r[0] += third*6*w[3] + rot
 		r[1] += third * 24 * w[4]
 		r[2] += third * 60 * w[5]
-		p[QBendingMoment][0] += m0
-		p[QBendingMoment][1] += m1 - m0
-		p[QShearForce][0] += v
+		m[0] += m0
+		m[1] += m1 - m0
+		vs[0] += v
 	}
-	n, m := &p[QAxialForce], &p[QBendingMoment]
-	p[QAxialStress] = Polynomial{n[0] * ia, n[1] * ia, n[2] * ia}
-	p[QBendingStress] = Polynomial{m[0] * ci, m[1] * ci, m[2] * ci, m[3] * ci}
+	sa, sb := &p[QAxialStress], &p[QBendingStress]
+	sa[0], sa[1], sa[2] = n[0]*ia, n[1]*ia, n[2]*ia
+	sb[0], sb[1], sb[2], sb[3] = m[0]*ci, m[1]*ci, m[2]*ci, m[3]*ci
 	v.Start, v.Length = start, h
 	v.degree = exactDegrees
-	v.known, v.endsKnown = 0, false
+	v.known, v.endsKnown, v.oneFibre = 0, false, false
 }
 
 // taylorShift turns p(t) into q(ξ) = p(t0 + scale·ξ). The steps are
@@ -459,6 +509,19 @@ func taylorShift(p *Polynomial, t0, scale float64) {
 	s2 := scale * scale
 	s4 := s2 * s2
 	p[1], p[2], p[3], p[4], p[5] = p[1]*scale, p[2]*s2, p[3]*s2*scale, p[4]*s4, p[5]*s4*scale
+}
+
+// cubicTaylorShift is taylorShift for p of degree 3 at most, whose other
+// steps add zeros: the same result to the bit.
+func cubicTaylorShift(p *Polynomial, t0, scale float64) {
+	p[2] += t0 * p[3]
+	p[1] += t0 * p[2]
+	p[0] += t0 * p[1]
+	p[2] += t0 * p[3]
+	p[1] += t0 * p[2]
+	p[2] += t0 * p[3]
+	s2 := scale * scale
+	p[1], p[2], p[3] = p[1]*scale, p[2]*s2, p[3]*s2*scale
 }
 
 // Intervals returns the exact solution stretch by stretch, between

@@ -363,10 +363,21 @@ func TestBenchQuickJSONKeys(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, stderr)
 	}
-	for _, key := range []string{"ratio", "exponent"} {
+	for _, key := range []string{"ratio", "exponent", `"post_over_solve"`, `"keypoint_exponent"`} {
 		if !strings.Contains(out, key) {
 			t.Errorf("bench JSON has no key containing %q", key)
 		}
+	}
+}
+
+// --pipeline runs the pipeline and point-load tables alone.
+func TestBenchQuickPipelineOnly(t *testing.T) {
+	code, out, stderr := runStave(t, "bench", "--quick", "--pipeline")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	if !strings.Contains(out, "stage by stage") || !strings.Contains(out, "Point loads on the beam model") || strings.Contains(out, "Pbtrf") {
+		t.Errorf("bench --pipeline printed\n%s", out)
 	}
 }
 

@@ -10,14 +10,16 @@ type Part uint
 
 // The sections Run can measure.
 const (
-	EndToEnd Part = 1 << iota // mesh, solve and fields through fem's public API
-	Memory                    // bytes allocated and peak heap growth per element
-	Kernels                   // ours vs Pbtrf+Pbtrs vs one copy of the band, on the identical system
-	Dense                     // ours vs gonum's dense Cholesky on small identical systems
-	Pitfall                   // mat.BandCholesky.Factorize vs Pbtrf
-	Oversize                  // fem.Solve on a request beyond the machine's memory
+	EndToEnd  Part = 1 << iota // mesh, solve and fields through fem's public API
+	Memory                     // bytes allocated and peak heap growth per element
+	Kernels                    // ours vs Pbtrf+Pbtrs vs one copy of the band, on the identical system
+	Dense                      // ours vs gonum's dense Cholesky on small identical systems
+	Pitfall                    // mat.BandCholesky.Factorize vs Pbtrf
+	Oversize                   // fem.Solve on a request beyond the machine's memory
+	Pipeline                   // what `stave solve --json` waits for, stage by stage
+	KeyPoints                  // the analysis with more and more point loads
 
-	AllParts = EndToEnd | Memory | Kernels | Dense | Pitfall | Oversize
+	AllParts = EndToEnd | Memory | Kernels | Dense | Pitfall | Oversize | Pipeline | KeyPoints
 )
 
 // Config says what Run measures and how often.
@@ -45,6 +47,10 @@ type Config struct {
 	PitfallUnknowns []int
 	// OversizeElements is the mesh request sent to fem.Solve to show the refusal.
 	OversizeElements int
+	// KeyPointLoads lists the numbers of point loads of the key-point table,
+	// on a beam of KeyPointElements elements (KeyPointModel).
+	KeyPointLoads    []int
+	KeyPointElements int
 	// Repetitions of each timing; the median is reported.
 	Repetitions int
 	// MinBatch is the shortest interval timed at once; quicker operations are
@@ -65,6 +71,8 @@ func DefaultConfig() Config {
 		DenseUnknowns:    []int{500, 1_000, 2_000},
 		PitfallUnknowns:  []int{2_500, 5_000, 10_000, 20_000},
 		OversizeElements: 1_000_000_000,
+		KeyPointLoads:    []int{10, 100, 1_000, 10_000},
+		KeyPointElements: 10_000,
 		Repetitions:      5,
 		MinBatch:         20 * time.Millisecond,
 		Parts:            AllParts,
@@ -81,6 +89,8 @@ func QuickConfig() Config {
 		DenseUnknowns:    []int{100, 200},
 		PitfallUnknowns:  []int{500, 1_000},
 		OversizeElements: 1_000_000_000,
+		KeyPointLoads:    []int{4, 16, 64},
+		KeyPointElements: 400,
 		Repetitions:      3,
 		MinBatch:         time.Millisecond,
 		Parts:            AllParts,

@@ -62,3 +62,19 @@ func BeamModel(elements int) *fem.Model {
 		Mesh:    fem.MeshSettings{Elements: elements, BarOrder: fem.LinearBar},
 	}
 }
+
+// KeyPointModel is BeamModel on about elements elements with loads more
+// point forces of 1 kN, down and up in turn, spread evenly along the
+// member between its other key points (demo data): every one is a key
+// point of the exact solution and a node of the mesh.
+func KeyPointModel(elements, loads int) *fem.Model {
+	m := BeamModel(elements)
+	for i := range loads {
+		force := -1e3
+		if i%2 == 1 {
+			force = 0.5e3
+		}
+		m.PointLoads = append(m.PointLoads, fem.PointLoad{X: 15 * (float64(i) + 0.5) / float64(loads), Transverse: force})
+	}
+	return m
+}

@@ -51,6 +51,12 @@ func (r *Report) WriteText(w io.Writer) error {
 		})
 		fmt.Fprintf(&b, "  BandCholesky time grows as unknowns^%.2f\n", r.PitfallExponent)
 	}
+	if len(r.Pipeline) > 0 {
+		r.pipelineTable(&b)
+	}
+	if len(r.KeyPoints) > 0 {
+		r.keyPointTable(&b)
+	}
 	if o := r.Oversize; o != nil {
 		fmt.Fprintf(&b, "\nRequest beyond memory: fem.Solve on the beam model with %d elements ", o.Elements)
 		if o.Refused {

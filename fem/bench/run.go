@@ -37,7 +37,17 @@ type Report struct {
 	// the number of unknowns (about 2 where its condition estimate dominates).
 	PitfallExponent float64          `json:"pitfall_band_cholesky_exponent"`
 	Oversize        *OversizeRequest `json:"oversize,omitempty"`
-	Targets         []Target         `json:"targets"`
+	// Pipeline is what `stave solve --json` waits for, stage by stage;
+	// its post-processing is judged from PipelineFrom elements.
+	Pipeline     []PipelineRow `json:"pipeline,omitempty"`
+	PipelineFrom int           `json:"pipeline_target_from_elements,omitempty"`
+	// KeyPoints times the analysis of a beam of KeyPointElements elements
+	// with more and more point loads; KeyPointExponent is the fitted
+	// growth of its time with their number.
+	KeyPoints        []KeyPointRow `json:"keypoints,omitempty"`
+	KeyPointElements int           `json:"keypoint_elements,omitempty"`
+	KeyPointExponent float64       `json:"keypoint_exponent,omitempty"`
+	Targets          []Target      `json:"targets"`
 }
 
 // Row is one model at one mesh size.
@@ -170,6 +180,10 @@ const (
 	targetBeamElements  = 1_000_000
 	targetExponent      = 1.1 // scaling of the end-to-end time
 	targetPeakBytes     = 400 // peak heap growth per element
+	// Everything after the solve (exact solution, extremes, comparison,
+	// checks, output) over the solve, from Config.ExponentFrom elements.
+	targetPostOverSolve    = 1.0
+	targetKeyPointExponent = 1.1 // growth of the analysis time with the point loads
 )
 
 // benchModel is one of the two models the main table measures.
@@ -236,6 +250,29 @@ func Run(cfg Config) (*Report, error) {
 	}
 	if cfg.Parts&Oversize != 0 {
 		r.Oversize = measureOversize(cfg)
+	}
+	if cfg.Parts&Pipeline != 0 {
+		r.PipelineFrom = cfg.ExponentFrom
+		for _, bm := range benchModels {
+			for _, size := range cfg.Elements {
+				row, err := measurePipeline(cfg, bm, size)
+				if err != nil {
+					return nil, err
+				}
+				r.Pipeline = append(r.Pipeline, row)
+			}
+		}
+	}
+	if cfg.Parts&KeyPoints != 0 {
+		r.KeyPointElements = cfg.KeyPointElements
+		for _, loads := range cfg.KeyPointLoads {
+			row, err := measureKeyPoints(cfg, loads)
+			if err != nil {
+				return nil, err
+			}
+			r.KeyPoints = append(r.KeyPoints, row)
+		}
+		r.KeyPointExponent, _ = keyPointExponent(r.KeyPoints)
 	}
 	r.Targets = targets(r, cfg.ExponentFrom)
 	return r, nil
@@ -631,6 +668,25 @@ func targets(r *Report, from int) []Target {
 	worst(fmt.Sprintf("peak heap growth per element, from %d elements", from), "B", targetPeakBytes, func(row Row) (float64, bool) {
 		return row.PeakBytesPerElement, row.Elements >= from && row.PeakBytesPerElement > 0
 	})
+	if len(r.Pipeline) > 0 {
+		t := Target{Name: fmt.Sprintf("post-processing / solve, from %d elements", r.PipelineFrom), Limit: targetPostOverSolve,
+			Unit: "ratio", Measured: math.Inf(-1)}
+		for _, row := range r.Pipeline {
+			if row.Elements >= r.PipelineFrom {
+				t.Measured = max(t.Measured, row.PostOverSolve)
+			}
+		}
+		if !math.IsInf(t.Measured, -1) {
+			t.Pass = t.Measured <= t.Limit
+			out = append(out, t)
+		}
+	}
+	if len(r.KeyPoints) > 1 {
+		out = append(out, Target{
+			Name:  fmt.Sprintf("key-point exponent, %d to %d point loads", r.KeyPoints[0].PointLoads, r.KeyPoints[len(r.KeyPoints)-1].PointLoads),
+			Limit: targetKeyPointExponent, Unit: "exponent", Measured: r.KeyPointExponent, Pass: r.KeyPointExponent <= targetKeyPointExponent,
+		})
+	}
 	for _, s := range r.Scaling {
 		out = append(out, Target{
 			Name:  fmt.Sprintf("scaling exponent, %s model, %d to %d elements", s.Model, s.FromElements, s.ToElements),

@@ -3,6 +3,7 @@ package bench
 import (
 	"bytes"
 	"encoding/json"
+	"math"
 	"slices"
 	"strconv"
 	"strings"
@@ -36,7 +37,7 @@ func TestQuickRun(t *testing.T) {
 			t.Errorf("the text report has no header with %q", header)
 		}
 	}
-	// One row per model and size in each of the two main tables.
+	// One row per model and size in each of the three main tables.
 	for _, model := range []string{"bar", "beam"} {
 		for _, row := range r.Rows {
 			if row.Model != model {
@@ -49,8 +50,8 @@ func TestQuickRun(t *testing.T) {
 					count++
 				}
 			}
-			if count != 2 {
-				t.Errorf("%s model, %d elements: %d text rows, want 2 (end to end and kernel)", model, row.Elements, count)
+			if count != 3 {
+				t.Errorf("%s model, %d elements: %d text rows, want 3 (end to end, kernel and pipeline)", model, row.Elements, count)
 			}
 		}
 	}
@@ -73,6 +74,7 @@ func TestQuickRun(t *testing.T) {
 		"band_cholesky_to_pbtrf_ratio", "scaling_exponent", "elements", "total_seconds",
 		"peak_heap_bytes_per_element", "allocated_bytes_per_element", "cpus", "go_version",
 		"band_bytes", "band_in_core_cache", "core_cache_bytes", "core_cache_source",
+		"post_over_solve", "keypoint_exponent", "point_loads", "comparison_seconds", "shares",
 	} {
 		if keys[want] == 0 {
 			t.Errorf("the JSON report has no key %q", want)
@@ -112,6 +114,40 @@ func TestQuickRun(t *testing.T) {
 	}
 	if o := r.Oversize; o == nil || !o.Refused || !strings.Contains(o.Message, "GB") {
 		t.Errorf("fem.Solve on %d elements should refuse with a memory estimate, got %+v", cfg.OversizeElements, o)
+	}
+	// The pipeline: one row per model and size, every stage measured, the
+	// shares adding up to the whole and post/solve what its stages say.
+	if got, want := len(r.Pipeline), 2*len(cfg.Elements); got != want {
+		t.Errorf("%d pipeline rows, want %d", got, want)
+	}
+	for _, row := range r.Pipeline {
+		stages := []float64{row.LoadSeconds, row.MeshSeconds, row.SolveSeconds, row.ExactSeconds,
+			row.ExtremesSeconds, row.ComparisonSeconds, row.ChecksSeconds, row.OutputSeconds}
+		shares := 0.0
+		for i, v := range stages {
+			if v <= 0 {
+				t.Errorf("%s model, %d elements: stage %s not measured", row.Model, row.Elements, pipelineStages[i])
+			}
+			shares += row.Shares[pipelineStages[i]]
+		}
+		if math.Abs(shares-1) > 1e-9 {
+			t.Errorf("%s model, %d elements: shares add up to %.12f", row.Model, row.Elements, shares)
+		}
+		post := row.ExactSeconds + row.ExtremesSeconds + row.ComparisonSeconds + row.ChecksSeconds + row.OutputSeconds
+		if math.Abs(row.PostOverSolve-post/row.SolveSeconds) > 1e-9*row.PostOverSolve {
+			t.Errorf("%s model, %d elements: post/solve %g, its stages give %g", row.Model, row.Elements, row.PostOverSolve, post/row.SolveSeconds)
+		}
+	}
+	if len(r.KeyPoints) != len(cfg.KeyPointLoads) {
+		t.Errorf("%d key-point rows, want %d", len(r.KeyPoints), len(cfg.KeyPointLoads))
+	}
+	for i, row := range r.KeyPoints {
+		if row.PointLoads != cfg.KeyPointLoads[i] || row.TotalSeconds <= 0 || row.Elements < cfg.KeyPointElements/2 {
+			t.Errorf("key-point row %d: %+v", i, row)
+		}
+	}
+	if r.KeyPointExponent == 0 {
+		t.Error("no key-point exponent was fitted")
 	}
 }
 

@@ -381,14 +381,21 @@ func (p *peaks) takeStress(i int, v *fem.Interval) {
 // takeDeflection takes the largest |w − chord| on v for part k.
 func (p *peaks) takeDeflection(k int, v *fem.Interval, c *chordLine) {
 	a, b := c.at(v.X(0)), c.at(v.X(1))
+	var lo, hi fem.Point
 	if w, ok := v.Polynomial(fem.QDeflection); ok {
 		w[0] -= a
 		w[1] -= b - a
 		if w.MaxAbsBound() <= p.deflection[k].value {
 			return // it cannot beat the peak so far
 		}
+		if endsHold(&w) {
+			lo, hi = endsOnly(v, w[0], w.At(1))
+		} else {
+			lo, hi = v.RangeOf(&w) // as RangeLess reads a polynomial interval
+		}
+	} else {
+		lo, hi = v.RangeLess(fem.QDeflection, a, b)
 	}
-	lo, hi := v.RangeLess(fem.QDeflection, a, b)
 	best := hi
 	if math.Abs(lo.Value) > math.Abs(hi.Value) {
 		best = lo
@@ -398,8 +405,49 @@ func (p *peaks) takeDeflection(k int, v *fem.Interval, c *chordLine) {
 	}
 }
 
-// takeCompression takes the largest −N on v for column k.
+// endsHold reports whether w, a cubic, lies strictly between its values at
+// the ends inside the interval: its inner Bernstein coefficients do, and
+// its hull holds it (Farin, Curves and Surfaces for CAGD, ch. 5, from
+// memory). Its range is then its ends', and no search is needed.
+func endsHold(w *fem.Polynomial) bool {
+	if w[4] != 0 || w[5] != 0 {
+		return false
+	}
+	end := w[0] + w[1] + w[2] + w[3]
+	lo, hi := min(w[0], end), max(w[0], end)
+	b1 := w[0] + w[1]/3
+	b2 := b1 + (w[1]+w[2])/3
+	return lo < b1 && b1 < hi && lo < b2 && b2 < hi
+}
+
+// endsOnly is the range of a quantity valued a at the start of v and b at
+// its end with nothing beyond them inside: the start wins a tie, as in
+// Interval.RangeOf.
+func endsOnly(v *fem.Interval, a, b float64) (lo, hi fem.Point) {
+	lo, hi = fem.Point{X: v.X(0), Value: a}, fem.Point{X: v.X(0), Value: a}
+	if b < a {
+		lo = fem.Point{X: v.X(1), Value: b}
+	}
+	if b > a {
+		hi = fem.Point{X: v.X(1), Value: b}
+	}
+	return lo, hi
+}
+
+// takeCompression takes the largest −N on v for column k: at an end where
+// N is linear on v (the elements of fem), as Range would give it, else from
+// Range.
 func (p *peaks) takeCompression(k int, v *fem.Interval) {
+	if n, ok := v.Polynomial(fem.QAxialForce); ok && n[2] == 0 && n[3] == 0 && n[4] == 0 && n[5] == 0 {
+		at, least := v.X(0), v.End(0).AxialForce
+		if b := v.End(1).AxialForce; b < least {
+			at, least = v.X(1), b
+		}
+		if -least > p.compression[k].value {
+			p.compression[k] = peak{-least, at}
+		}
+		return
+	}
 	lo, _ := v.Range(fem.QAxialForce)
 	if n := -lo.Value; n > p.compression[k].value {
 		p.compression[k] = peak{n, lo.X}
