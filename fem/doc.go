@@ -11,7 +11,13 @@
 // with N = EA(u' − αΔT) (tension positive), M = EI·w” (sagging positive),
 // V = dM/dx and dV/dx = q. Point forces and moments, support settlements,
 // elastic springs, a uniform change of temperature and self-weight
-// (ρ·A·g per length, from Model.Gravity) are the loads.
+// (ρ·A·g per length, from Model.Gravity) are the loads. A temperature
+// difference ΔT through the depth h of a segment adds the free curvature
+// α·ΔT/h to the beam; a segment may deform in shear (Timoshenko:
+// V = κGA(w' − θ)); internal hinges release the moment, or hold it by a
+// rotational spring; elastic (Winkler) foundations add k·w and k_a·u to the
+// left-hand sides over their stretch. Load cases are solved on one
+// factorization and combined by superposition into envelopes.
 //
 // # Sign conventions
 //
@@ -39,6 +45,9 @@
 //	      displacements → reactions (statics), equilibrium, strain energy
 //	      → Solution.At / Solution.Sample (fields)
 //	  Member.Exact() → Exact: the closed-form solution of the same model
+//	  Solution.Elements / Compare → one walk over the elements (walk.go:
+//	      ElementView, the FE and exact polynomials of an element), with
+//	      extremes, the largest gap and the error norms in closed form
 //
 // Solve, SolveOnMesh, BuildMesh, MeshFromNodes and SolveExact are the same
 // steps for one call each. A Structure answers any number of load sets

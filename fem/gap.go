@@ -29,7 +29,9 @@ func (v *ElementView) Gap(q Quantity, above float64) (Point, bool) {
 		if da.MaxAbsBound()+db.MaxAbsBound() <= above {
 			return Point{}, false
 		}
-		e = combinedError(fe, ex)
+		if e = combinedError(fe, ex, above); e.value < 0 {
+			return Point{}, false
+		}
 	} else {
 		var d Polynomial
 		for k := range d {
