@@ -138,7 +138,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 	env := c.Envelope
 	out.Envelope = EnvelopeJSON{Caution: CombinedCaution, Spans: c.Solutions.Loads.Spans}
 	for _, q := range env.Quantities {
-		out.Envelope.Quantities = append(out.Envelope.Quantities, QuantityEnvelope{Quantity: q.Quantity, Name: jsonName(q.Quantity), Unit: q.Quantity.Info().SI,
+		out.Envelope.Quantities = append(out.Envelope.Quantities, QuantityEnvelope{Quantity: q.Quantity, Name: q.Quantity.Key(), Unit: q.Quantity.Info().SI,
 			Max: governingJSON(m, c, q.Max), Min: governingJSON(m, c, q.Min)})
 	}
 	for _, r := range env.Reactions {

@@ -4,7 +4,6 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
-	"strings"
 	"text/tabwriter"
 
 	"stave/fem"
@@ -204,8 +203,6 @@ func headlineName(exact bool) string {
 	return "finite_element"
 }
 
-// jsonName is a quantity's name as a snake_case JSON value.
-func jsonName(q fem.Quantity) string { return strings.ReplaceAll(q.Info().Name, " ", "_") }
 
 // compared is a headline value v beside the finite element value fe.
 func compared(exact bool, v, fe float64, unit string) comparedJSON {
@@ -247,7 +244,7 @@ func resultsOf(s fem.Summary) *Results {
 			c := compared(s.Exact, v, fe, e.Unit)
 			return placeJSON{Value: v, X: x, Exact: c.Exact, FE: fe, XFE: xfe, Difference: c.Difference, Unit: e.Unit, XUnit: "m"}
 		}
-		j := extremeJSON{Quantity: jsonName(e.Quantity), Name: e.Quantity.Info().Name,
+		j := extremeJSON{Quantity: e.Quantity.Key(), Name: e.Quantity.Info().Name,
 			Max: place(e.Max, e.XMax, e.FEMax, e.FEXMax), Min: place(e.Min, e.XMin, e.FEMin, e.FEXMin)}
 		if s.Exact {
 			a := e.Accuracy

@@ -122,7 +122,10 @@ func feReading(m *fem.Model, t *moving.Train, q fem.Quantity, ex moving.Extreme)
 	for _, p := range points {
 		if math.Abs(p.X-ex.X) <= 1e-9*L {
 			for _, d := range []float64{-nudge * L, nudge * L} {
-				places = append(places, moving.Placement{Direction: ex.Placement.Direction, Front: ex.Placement.Front + d})
+				// A train at an end of its run moves by a hair one way only.
+				if pl := (moving.Placement{Direction: ex.Placement.Direction, Front: ex.Placement.Front + d}); onRun(t, pl, L) {
+					places = append(places, pl)
+				}
 			}
 			break
 		}
@@ -142,6 +145,26 @@ func feReading(m *fem.Model, t *moving.Train, q fem.Quantity, ex moving.Extreme)
 		}
 	}
 	return best, nil
+}
+
+// onRun reports whether every load of t at p stands on its run on a
+// member of length L.
+func onRun(t *moving.Train, p moving.Placement, L float64) bool {
+	from, to := t.Run(L)
+	points, lines := t.Loads(p)
+	for _, a := range points {
+		if a.X < from || a.X > to {
+			return false
+		}
+	}
+	for _, d := range lines {
+		for _, v := range d.Points {
+			if v.X < from || v.X > to {
+				return false
+			}
+		}
+	}
+	return true
 }
 
 // TrainEnvelopes are the envelopes of every train of p, each extreme
