@@ -203,7 +203,6 @@ func headlineName(exact bool) string {
 	return "finite_element"
 }
 
-
 // compared is a headline value v beside the finite element value fe.
 func compared(exact bool, v, fe float64, unit string) comparedJSON {
 	c := comparedJSON{Value: v, FE: fe, Unit: unit}
