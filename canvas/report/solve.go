@@ -51,6 +51,9 @@ type resultsDocument struct {
 	// The cases, combinations and envelope of a model with load cases
 	// (cases.go); Results are then of the case or combination shown.
 	*CasesJSON
+	// Trains are the file's moving load trains, each alone on the member:
+	// worst positions and envelope (trains.go).
+	Trains []TrainJSON `json:"trains,omitempty"`
 }
 
 // Results are one set of results: reactions, extremes, the actions at the
@@ -346,6 +349,9 @@ func WriteSolveJSON(w io.Writer, path string, src Source) error {
 			return err
 		}
 		doc.CasesJSON = cases
+		if src.Project != nil {
+			doc.Trains = TrainsJSON(&src.Project.Model, solveTrains(src.Project), true)
+		}
 	}
 	return WriteJSON(w, doc)
 }
@@ -360,6 +366,10 @@ func WriteSolveJSON(w io.Writer, path string, src Source) error {
 func WriteSolveText(w io.Writer, path string, src Source) {
 	fmt.Fprintf(w, "Stave %s: %s\n", Version, path)
 	WriteResultsText(w, src)
+	if trains := solveTrains(src.Project); trains != nil {
+		fmt.Fprintln(w, "\nMoving load trains, each alone on the member (its own loads and cases not added; stave influence draws them)")
+		writeTrainsText(w, trains, &src.Project.Model, nil, src.Units)
+	}
 	fmt.Fprintln(w, "\nCaution:", fem.Caution)
 }
 

@@ -178,6 +178,24 @@ func TrainEnvelopes(p *storage.Project) ([]TrainResult, error) {
 	return trainResults(p, in, member.Mesh(), nil, true)
 }
 
+// solveTrains are the envelopes of p's trains for the solve command, each
+// train alone on the member without its own loads; when the member's
+// influence lines cannot be set up, every train carries why.
+func solveTrains(p *storage.Project) []TrainResult {
+	if p == nil || len(p.Trains) == 0 {
+		return nil
+	}
+	rs, err := TrainEnvelopes(p)
+	if err == nil {
+		return rs
+	}
+	rs = make([]TrainResult, len(p.Trains))
+	for i, t := range p.Trains {
+		rs[i] = TrainResult{Train: t, Label: t.Label(i), Err: err}
+	}
+	return rs
+}
+
 // influenceOf prepares the member of p and sets up its influence lines.
 func influenceOf(p *storage.Project) (*fem.Member, *moving.Influence, error) {
 	member, err := fem.Prepare(&p.Model)

@@ -142,6 +142,35 @@ func TestInfluenceCommandTwoAxlesAbsoluteMaximum(t *testing.T) {
 	}
 }
 
+// stave solve --json carries each train's worst positions and envelope,
+// the same as stave influence --envelope finds for them.
+func TestSolveJSONCarriesTrains(t *testing.T) {
+	const file = "../../testdata/moving/runway.json"
+	code, out, stderr := runStave(t, "solve", "--json", file)
+	if code != 0 || stderr != "" {
+		t.Fatalf("exit %d, stderr %q", code, stderr)
+	}
+	var solved influenceJSON
+	if err := json.Unmarshal([]byte(out), &solved); err != nil {
+		t.Fatal(err)
+	}
+	inf := influenceRun(t, file, "--quantity", "M", "--at", "2", "--envelope")
+	if len(solved.Trains) != len(inf.Trains) || len(solved.Trains) != 2 {
+		t.Fatalf("solve gives %d trains, influence %d; the file has 2", len(solved.Trains), len(inf.Trains))
+	}
+	for i, tr := range solved.Trains {
+		if tr.Envelope == nil || len(tr.Worst) == 0 || len(tr.Worst) != len(inf.Trains[i].Worst) {
+			t.Fatalf("%s: envelope %v, %d extremes; influence gives %d", tr.Train, tr.Envelope != nil, len(tr.Worst), len(inf.Trains[i].Worst))
+		}
+		for j, w := range tr.Worst {
+			v := inf.Trains[i].Worst[j]
+			if w.Quantity != v.Quantity || w.Largest.Value != v.Largest.Value || w.Smallest.Value != v.Smallest.Value {
+				t.Errorf("%s: solve has %s %g..%g, influence %s %g..%g", tr.Train, w.Quantity, w.Smallest.Value, w.Largest.Value, v.Quantity, v.Smallest.Value, v.Largest.Value)
+			}
+		}
+	}
+}
+
 func TestInfluenceCommandMisuse(t *testing.T) {
 	for _, c := range []struct {
 		args []string
