@@ -414,7 +414,7 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 			at := Place{Item: it, Property: MotionStiffnessProperty, Dof: Dof(d)}
 			switch {
 			case k != 0 && s.Kind.Restrains(Dof(d)):
-				v.add(at, fmt.Sprintf("support %d is %s, which holds the %s motion rigidly, so a stiffness for that motion has no effect: remove it, or choose a kind that leaves the motion free (such as %s) to hold it by a spring", i+1, s.Kind, Dof(d), freeKindFor(Dof(d))))
+				v.add(at, fmt.Sprintf("support %d is a %s support, which holds the %s motion rigidly, so a stiffness for that motion has no effect: remove it, or choose a kind that leaves the motion free (such as %s) to hold it by a spring", i+1, s.Kind, Dof(d), freeKindFor(Dof(d))))
 			case !isFinite(k):
 				v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %v: enter a finite value in %s", i+1, Dof(d), k, springUnits[d]))
 			case k < 0:
