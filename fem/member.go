@@ -1,6 +1,9 @@
 package fem
 
-import "sync"
+import (
+	"errors"
+	"sync"
+)
 
 // Member is a model made ready for solving: validated once, its key points
 // found and its loads gathered once. Every solve of a model starts from one,
@@ -42,6 +45,11 @@ func Prepare(m *Model) (*Member, error) {
 	}
 	p.bending = !m.AxialOnly && (bends || holdsAcross(m))
 	p.mechanism = checkMechanism(m, p.bending)
+	var me *MechanismError
+	if p.bending && !bends && errors.As(p.mechanism, &me) && me.Motion != "axial" {
+		// Nothing loads the member across: it may be meant as a tie or strut.
+		me.Message += ", or, for a tie or strut that nothing loads across, declare the member axial-only"
+	}
 	return p, nil
 }
 
