@@ -182,3 +182,83 @@ func TestGroundBeamBalances(t *testing.T) {
 		t.Errorf("FE ground %g N against exact %g N: off by %g, beyond the reported accuracy %g", g.FE, g.Value, d/math.Abs(g.Value), doc.Mesh.AccuracyReached)
 	}
 }
+
+// With load cases, each case and combination reports what the ground
+// carries, and the envelope holds its largest and smallest. A free beam on
+// a full-length foundation returns every load across it through the
+// ground (statics), so each combination's ground is Σ factor × case load.
+func TestCasesReportTheGround(t *testing.T) {
+	const L, g, q = 10.0, -10e3, -50e3 // m, N/m permanent, N imposed
+	p := groundProject(L, 2e8, 2e7, fem.MeshSettings{Elements: 40})
+	p.Model.Cases = []fem.LoadCase{
+		{Name: "permanent", DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: g}, {X: L, Intensity: g}}}}},
+		{Name: "imposed", PointLoads: []fem.PointLoad{{X: 3, Transverse: q}}},
+	}
+	p.Model.Combinations = []fem.Combination{
+		{Name: "ULS", Kind: fem.Strength, Factors: []fem.CaseFactor{{Case: 0, Factor: 1.35}, {Case: 1, Factor: 1.5}}},
+		{Name: "G only", Kind: fem.Strength, Factors: []fem.CaseFactor{{Case: 0, Factor: 1}}},
+	}
+	src, err := Analyse(context.Background(), p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var js bytes.Buffer
+	if err := WriteSolveJSON(&js, "model.json", src); err != nil {
+		t.Fatal(err)
+	}
+	type ground struct {
+		Foundations []struct{ Transverse struct{ Value, FE float64 } }
+	}
+	var doc struct {
+		Cases, Combinations []ground
+		Envelope            struct {
+			Foundations []struct {
+				Foundation int
+				Max, Min   map[string]struct {
+					Value       float64
+					Combination string
+				}
+			}
+		}
+	}
+	if err := json.Unmarshal(js.Bytes(), &doc); err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		name string
+		got  []ground
+		want []float64 // N, up
+	}{
+		{"cases", doc.Cases, []float64{-g * L, -q}},
+		{"combinations", doc.Combinations, []float64{-1.35*g*L - 1.5*q, -g * L}},
+	} {
+		if len(c.got) != len(c.want) {
+			t.Fatalf("%d %s, want %d", len(c.got), c.name, len(c.want))
+		}
+		for i, r := range c.got {
+			if len(r.Foundations) != 1 || !near(r.Foundations[0].Transverse.Value, c.want[i], 1e-9) || !near(r.Foundations[0].Transverse.FE, c.want[i], 1e-6) {
+				t.Errorf("%s %d: the ground carries %+v, want %g N", c.name, i+1, r.Foundations, c.want[i])
+			}
+		}
+	}
+	env := doc.Envelope.Foundations
+	if len(env) != 1 || env[0].Foundation != 1 {
+		t.Fatalf("envelope of the ground %+v: want foundation 1", env)
+	}
+	hi, lo := env[0].Max["transverse"], env[0].Min["transverse"]
+	if !near(hi.Value, -1.35*g*L-1.5*q, 1e-6) || hi.Combination != "ULS" || !near(lo.Value, -g*L, 1e-6) || lo.Combination != "G only" {
+		t.Errorf("the ground's envelope runs from %+v to %+v: want %g N (G only) to %g N (ULS)", lo, hi, -g*L, -1.35*g*L-1.5*q)
+	}
+	cases, err := CasesResults(src.Analysis)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var text bytes.Buffer
+	WriteCasesText(&text, "model.json", cases, units.SI)
+	if want := "Ground envelope"; !strings.Contains(text.String(), want) || !strings.Contains(text.String(), units.SI.Format(units.Force, hi.Value)) {
+		t.Errorf("the cases text lacks %q or the largest ground resultant:\n%s", want, text.String())
+	}
+	if all := strings.Join(sheetCaseLines(src), "\n"); !strings.Contains(all, "Ground's resultant across the member, foundation 1: ") {
+		t.Errorf("the sheet's case lines do not give the ground's envelope:\n%s", all)
+	}
+}
