@@ -123,7 +123,9 @@ func buildSheet(in SheetInput) *Scene {
 	// Strips that do not fit the height run on below it: shrink them into the box.
 	k := float32(diagramScale)
 	for _, st := range diagrams.Strips {
-		k = min(k, dh/st.Bottom)
+		if st.Bottom*diagramScale > dh+1 { // a point's slack: strips end at the box to round-off
+			k = min(k, dh/st.Bottom)
+		}
 	}
 	appendScene(b.s, diagrams, sheetEdge, sh.y, k)
 	b.polygon(color.NRGBA{}, faintColour, 0.5, Point{sheetEdge, sh.y}, Point{right, sh.y}, Point{right, sh.y + dh}, Point{sheetEdge, sh.y + dh})
