@@ -439,6 +439,7 @@ type combinationRow struct {
 	kind    *widget.Select
 	label   string
 	factors []*widget.Entry
+	trains  []fem.TrainFactor // kept as the file has them: the table edits the cases' factors
 }
 
 var kindNames = []string{fem.Strength.String(), fem.Serviceability.String(), fem.OtherCombination.String()}
@@ -462,7 +463,7 @@ func newCombinationTable(m fem.Model) *combinationTable {
 
 // addRow adds a row showing cb.
 func (t *combinationTable) addRow(cb fem.Combination) {
-	r := combinationRow{name: widget.NewEntry(), kind: widget.NewSelect(kindNames, nil), label: cb.Label}
+	r := combinationRow{name: widget.NewEntry(), kind: widget.NewSelect(kindNames, nil), label: cb.Label, trains: cb.Trains}
 	r.name.SetText(cb.Name)
 	r.kind.SetSelected(cb.Kind.String())
 	t.grid.Add(r.name)
@@ -503,7 +504,7 @@ func (t *combinationTable) addTemplates() {
 func (t *combinationTable) combinations() ([]fem.Combination, error) {
 	var out []fem.Combination
 	for i, r := range t.rows {
-		cb := fem.Combination{Name: strings.TrimSpace(r.name.Text), Label: r.label}
+		cb := fem.Combination{Name: strings.TrimSpace(r.name.Text), Label: r.label, Trains: r.trains}
 		cb.Kind, _ = fem.ParseCombinationKind(r.kind.Selected)
 		for k, e := range r.factors {
 			s := strings.TrimSpace(e.Text)

@@ -70,6 +70,18 @@ type Combination struct {
 	// instead of the kind's name when given.
 	Label   string
 	Factors []CaseFactor
+	// Trains are moving load trains taken with the combination, each with
+	// its factor, on top of its cases. They belong to the project (its
+	// trains, by index), not to the model: fem solves the combination's
+	// cases alone, and package moving adds the trains' envelopes.
+	Trains []TrainFactor
+}
+
+// TrainFactor is one moving load train (an index into the project's
+// trains) and its factor in a combination.
+type TrainFactor struct {
+	Train  int
+	Factor float64
 }
 
 // CaseFactor is one load case (an index into Model.Cases) and its factor.

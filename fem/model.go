@@ -333,6 +333,7 @@ func (m *Model) Clone() Model {
 		c.Combinations = make([]Combination, len(m.Combinations))
 		for i, cb := range m.Combinations {
 			cb.Factors = slices.Clone(cb.Factors)
+			cb.Trains = slices.Clone(cb.Trains)
 			c.Combinations[i] = cb
 		}
 	}

@@ -30,8 +30,10 @@ type (
 		Label   string       `json:"label,omitempty"`
 		Factors []fileFactor `json:"factors"`
 	}
+	// fileFactor names a load case, or a moving load train, and its factor.
 	fileFactor struct {
-		Case   string `json:"case"`
+		Case   string `json:"case,omitempty"`
+		Train  string `json:"train,omitempty"`
 		Factor number `json:"factor"`
 	}
 )
@@ -75,6 +77,15 @@ func (c *converter) cases(p *Project) ([]fileCase, []fileCombination) {
 			}
 			fc.Factors = append(fc.Factors, fileFactor{Case: name, Factor: c.num(fp+".factor", cf.Factor)})
 		}
+		for i, tf := range cb.Trains {
+			fp := fmt.Sprintf("%s.factors[%d]", path, len(cb.Factors)+i)
+			if tf.Train < 0 || tf.Train >= len(p.Trains) || p.Trains[tf.Train].Name == "" {
+				c.problems = append(c.problems, Problem{Path: fp + ".train",
+					Message: fmt.Sprintf("names train %d, but there is no train of that number with a name; name the train, or remove it from the combination", tf.Train+1)})
+				continue
+			}
+			fc.Factors = append(fc.Factors, fileFactor{Train: p.Trains[tf.Train].Name, Factor: c.num(fp+".factor", tf.Factor)})
+		}
 		combos = append(combos, fc)
 	}
 	return cases, combos
@@ -117,7 +128,13 @@ func (r *reader) cases(p *Project, top *fields) {
 		factors, factorPaths := f.list("factors", true, `"factors": [{"case": "permanent", "factor": 1.35}, ...]`)
 		for j, item := range factors {
 			ff := r.object(factorPaths[j], item)
-			name := ff.text("case", true, `"case" with the name of a load case`)
+			if item.kind == objectNode && item.fields["train"] != nil {
+				if tf, ok := r.trainFactor(p, ff); ok {
+					cb.Trains = append(cb.Trains, tf)
+				}
+				continue
+			}
+			name := ff.text("case", true, `"case" with the name of a load case, or "train" with the name of a moving load train`)
 			cf := fem.CaseFactor{Case: caseNamed(p.Model.Cases, name), Factor: ff.number("factor", "(no unit)", true)}
 			if cf.Case < 0 && ff.holds("case", stringNode) {
 				list := "none: add the case under \"cases\""
@@ -132,6 +149,37 @@ func (r *reader) cases(p *Project, top *fields) {
 		f.finish()
 		p.Model.Combinations = append(p.Model.Combinations, cb)
 	}
+}
+
+// trainFactor reads a factor entry that names a moving load train:
+// {"train": NAME, "factor": F}. p's trains must be read already.
+func (r *reader) trainFactor(p *Project, ff *fields) (fem.TrainFactor, bool) {
+	name := ff.text("train", true, `"train" with the name of a moving load train`)
+	tf := fem.TrainFactor{Train: -1, Factor: ff.number("factor", "(no unit)", true)}
+	for i, t := range p.Trains {
+		switch {
+		case t.Name != name:
+		case tf.Train < 0:
+			tf.Train = i
+		default:
+			r.add(join(ff.path, "train"), "%q names trains %d and %d: give each train its own name", cut(name), tf.Train+1, i+1)
+		}
+	}
+	if tf.Train < 0 && ff.holds("train", stringNode) {
+		var names []string
+		for _, t := range p.Trains {
+			if t.Name != "" {
+				names = append(names, strconv.Quote(cut(t.Name)))
+			}
+		}
+		list := "none: add it under \"trains\" with a name"
+		if len(names) > 0 {
+			list = "one of " + strings.Join(names, ", ")
+		}
+		r.add(join(ff.path, "train"), "%q is not a train of this file; use %s", cut(name), list)
+	}
+	ff.finish()
+	return tf, tf.Train >= 0
 }
 
 // caseNamed is the index of the case named name, or −1.

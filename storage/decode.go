@@ -430,8 +430,8 @@ func (r *reader) project(top *fields) *Project {
 		weight.finish()
 	}
 	p.Model.TemperatureChange = top.number("temperature_change", "K", false)
+	p.Trains = r.trains(top) // before the combinations, which may name them
 	r.cases(p, top)
-	p.Trains = r.trains(top)
 
 	// Without a mesh, or without its number of elements, Stave chooses the
 	// mesh, as it does for "elements": 0.

@@ -1,10 +1,13 @@
 package storage
 
 import (
+	"os"
+	"path/filepath"
 	"reflect"
 	"strings"
 	"testing"
 
+	"stave/fem"
 	"stave/fem/moving"
 )
 
@@ -107,5 +110,40 @@ func TestTrainsThatDoNotFitStillOpen(t *testing.T) {
 		if err := back.Trains[i].Check(back.Model.Length(), i); err == nil || !strings.Contains(err.Error(), says) {
 			t.Errorf("train %d: %v, want a message saying %q", i+1, err, says)
 		}
+	}
+}
+
+// A combination takes a train by its name: saved and read back it keeps
+// it; a name that is no train of the file is refused where it stands.
+func TestCombinationTakesATrain(t *testing.T) {
+	data, err := os.ReadFile(filepath.Join("..", "testdata", "two_span_cases.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	withTrain := func(name string) []byte {
+		s := strings.Replace(string(data), `"combinations": [`, `"trains": [{"name": "trolley", "axles": [{"load": 12000}, {"load": 12000, "spacing": 1.2}]}],
+  "combinations": [{"name": "with trolley", "kind": "strength", "factors": [{"case": "both spans", "factor": 1.35}, {"train": "`+name+`", "factor": 1.5}]},`, 1)
+		if s == string(data) {
+			t.Fatal("the file has no combinations to add to")
+		}
+		return []byte(s)
+	}
+	p, err := Unmarshal(withTrain("trolley"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if cb := p.Model.Combinations[0]; len(cb.Trains) != 1 || cb.Trains[0] != (fem.TrainFactor{Train: 0, Factor: 1.5}) || len(cb.Factors) != 1 {
+		t.Fatalf("the combination reads as %+v, want case 1 at 1.35 and the trolley at 1.5", cb)
+	}
+	saved, err := Marshal(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(string(saved), `"train": "trolley"`) {
+		t.Errorf("saved without the train's factor:\n%s", saved)
+	}
+	_, err = Unmarshal(withTrain("trolly"))
+	if err == nil || !strings.Contains(err.Error(), `combinations[0].factors[1].train: "trolly" is not a train of this file; use one of "trolley"`) {
+		t.Errorf("an unknown train: %v", err)
 	}
 }

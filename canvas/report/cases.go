@@ -10,6 +10,7 @@ import (
 
 	"stave/fem"
 	"stave/fem/analysis"
+	"stave/fem/moving"
 	"stave/fem/units"
 )
 
@@ -50,9 +51,11 @@ type CombinationJSON struct {
 	*Results
 }
 
-// FactorJSON is one case of a combination and its factor.
+// FactorJSON is one case of a combination, or one of its moving load
+// trains, and its factor.
 type FactorJSON struct {
-	Case   string  `json:"case"`
+	Case   string  `json:"case,omitempty"`
+	Train  string  `json:"train,omitempty"`
 	Factor float64 `json:"factor"`
 }
 
@@ -141,7 +144,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 	for k, cb := range c.Combinations {
 		cj := CombinationJSON{Name: cb.Name, Kind: cb.Kind.String(), Label: cb.Label}
 		for _, f := range cb.Factors {
-			cj.Factors = append(cj.Factors, FactorJSON{m.LoadSetName(f.Case), f.Factor})
+			cj.Factors = append(cj.Factors, FactorJSON{Case: m.LoadSetName(f.Case), Factor: f.Factor})
 		}
 		if k < len(c.Summaries) {
 			cj.Results = resultsOf(c.Summaries[k])
@@ -223,9 +226,47 @@ func (g GoverningJSON) Arrangement() string {
 func FactorsText(c CombinationJSON) string {
 	parts := make([]string, len(c.Factors))
 	for i, f := range c.Factors {
+		if f.Train != "" {
+			parts[i] = fmt.Sprintf("%g × train %q", f.Factor, f.Train)
+			continue
+		}
 		parts[i] = fmt.Sprintf("%g × %s", f.Factor, f.Case)
 	}
 	return strings.Join(parts, " + ")
+}
+
+// AddTrains adds to r's combinations the moving load trains each takes in
+// model m (by the trains' names), which CasesResults, reading the analysis
+// alone, leaves out. A nil r stays nil.
+func (r *CasesJSON) AddTrains(m *fem.Model, trains []moving.Train) {
+	if r == nil {
+		return
+	}
+	for i := range r.Combinations {
+		c := &r.Combinations[i]
+		for _, cb := range m.Combinations {
+			if cb.Name != c.Name {
+				continue
+			}
+			for _, tf := range cb.Trains {
+				if tf.Train >= 0 && tf.Train < len(trains) {
+					c.Factors = append(c.Factors, FactorJSON{Train: trains[tf.Train].Name, Factor: tf.Factor})
+				}
+			}
+		}
+	}
+}
+
+// takesTrains reports whether a combination of r takes a train.
+func (r *CasesJSON) takesTrains() bool {
+	for _, c := range r.Combinations {
+		for _, f := range c.Factors {
+			if f.Train != "" {
+				return true
+			}
+		}
+	}
+	return false
 }
 
 // WriteCasesText writes the cases, the combinations with their factors,
@@ -259,6 +300,9 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 			kind = c.Label
 		}
 		fmt.Fprintf(tw, "  %s\t%s\t%s\n", c.Name, kind, FactorsText(c))
+	}
+	if r.takesTrains() {
+		fmt.Fprintln(tw, "  A combination's train is not in the envelope below, which takes its cases alone: its moving loads are under the trains further on.")
 	}
 	tw.Flush()
 	fmt.Fprintf(tw, "\nEnvelope over every combination%s\n", spanWords(r.Envelope.Spans))

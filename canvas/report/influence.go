@@ -192,6 +192,15 @@ func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *mo
 			fmt.Fprintf(tw, "    \tsmallest\t%s\n", trainExtremeText(lo, k, u, false))
 		}
 		tw.Flush()
+		for _, c := range tr.Combinations {
+			fmt.Fprintf(w, "  in combination %q, factor %s on top of its cases (exact solution, every span loaded)\n", c.Combination, units.FormatNumber(c.Factor))
+			for _, q := range c.Worst {
+				k := q.Quantity.Info().Unit
+				fmt.Fprintf(tw, "    %s\tlargest\t%s\n", q.Quantity, trainExtremeText(q.Largest, k, u, true))
+				fmt.Fprintf(tw, "    \tsmallest\t%s\n", trainExtremeText(q.Smallest, k, u, true))
+			}
+			tw.Flush()
+		}
 	}
 }
 

@@ -398,6 +398,9 @@ func WriteSolveJSON(w io.Writer, path string, src Source) error {
 		if err != nil {
 			return err
 		}
+		if src.Project != nil {
+			cases.AddTrains(&src.Project.Model, src.Project.Trains)
+		}
 		doc.CasesJSON = cases
 		if src.Project != nil {
 			doc.Trains = TrainsJSON(&src.Project.Model, solveTrains(src.Project), true)
@@ -416,11 +419,18 @@ func WriteSolveJSON(w io.Writer, path string, src Source) error {
 func WriteSolveText(w io.Writer, path string, src Source) {
 	fmt.Fprintf(w, "Stave %s: %s\n", Version, path)
 	WriteResultsText(w, src)
+	WriteTrainsText(w, src)
+	fmt.Fprintln(w, "\nCaution:", fem.Caution)
+}
+
+// WriteTrainsText writes what each of the project's moving load trains
+// does on the member, alone and in the combinations that take it; nothing
+// for a project without trains.
+func WriteTrainsText(w io.Writer, src Source) {
 	if trains := solveTrains(src.Project); trains != nil {
-		fmt.Fprintln(w, "\nMoving load trains, each alone on the member (its own loads and cases not added; stave influence draws them)")
+		fmt.Fprintln(w, "\nMoving load trains, each alone on the member (its own loads and cases not added, except in the combinations that take it; stave influence draws them)")
 		writeTrainsText(w, trains, &src.Project.Model, nil, src.Units)
 	}
-	fmt.Fprintln(w, "\nCaution:", fem.Caution)
 }
 
 // WriteResultsText writes what WriteSolveText writes between its title and

@@ -23,6 +23,20 @@ type TrainResult struct {
 	// Worst are the envelope's extremes of each quantity, checked by
 	// solving the train at its governing position by finite elements.
 	Worst []QuantityWorst
+	// Combinations are the combinations that take the train, each its
+	// envelope with the combination's own cases on top (with the envelope).
+	Combinations []TrainCombination
+}
+
+// TrainCombination is a combination that takes a train with a factor:
+// at every station, the combination's cases (exact solution, every span
+// loaded) plus the factor times the train's largest or smallest value, and
+// the extremes of that over the member.
+type TrainCombination struct {
+	Combination string
+	Factor      float64
+	Envelope    *moving.Envelope
+	Worst       []QuantityWorst
 }
 
 // TrainExtreme is an extreme of a quantity under a train: its value (SI),
@@ -71,10 +85,127 @@ func trainResults(p *storage.Project, in *moving.Influence, mesh fem.Mesh, targe
 			if tr.Worst, err = checkedWorst(&p.Model, t, tr.Envelope); err != nil {
 				return nil, err
 			}
+			if tr.Combinations, err = trainCombinations(p, i, in, mesh, tr.Envelope); err != nil {
+				return nil, err
+			}
 		}
 		out = append(out, tr)
 	}
 	return out, nil
+}
+
+// trainCombinations are the combinations of p that take train i, each
+// with train i's envelope e factored on top of its cases (exact solution,
+// every span loaded). Where the cases' field jumps at a station (the shear
+// force at a support), the two sides are combined apart: the train's
+// envelope is taken a little (sideShift of the length) either side of the
+// station, so its largest value meets the cases' field on the same side,
+// and the worse side is kept.
+func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem.Mesh, e *moving.Envelope) ([]TrainCombination, error) {
+	m := &p.Model
+	var out []TrainCombination
+	var exacts []*fem.Exact
+	var sides [2]*moving.Envelope
+	var at [2][]float64
+	for _, cb := range m.Combinations {
+		for _, tf := range cb.Trains {
+			if tf.Train != i {
+				continue
+			}
+			if exacts == nil {
+				member, err := fem.Prepare(m)
+				if err != nil {
+					return nil, err
+				}
+				if exacts, err = member.ExactLoadSets(); err != nil {
+					return nil, fmt.Errorf("combination %q with its train: %w", cb.Name, err)
+				}
+				at = sideStations(e.Stations, m.Length())
+				for k := range sides {
+					if sides[k], err = in.Envelope(&p.Trains[i], mesh, at[k]); err != nil {
+						return nil, err
+					}
+				}
+			}
+			factors := make([]float64, len(exacts))
+			for _, cf := range cb.Factors {
+				factors[cf.Case] += cf.Factor
+			}
+			own, err := fem.CombineExact(exacts, factors)
+			if err != nil {
+				return nil, err
+			}
+			reactions := own.Reactions()
+			baseReactions := make([]float64, len(e.Reactions))
+			for k, re := range e.Reactions {
+				baseReactions[k] = reactions[re.Support].Force[re.Motion]
+			}
+			base := func(stations []float64, side fem.Side) [][]float64 {
+				b := make([][]float64, len(moving.EnvelopeQuantities))
+				for q, qty := range moving.EnvelopeQuantities {
+					b[q] = make([]float64, len(stations))
+					for s, x := range stations {
+						f := own.At(x, side)
+						b[q][s] = qty.Of(&f)
+					}
+				}
+				return b
+			}
+			c := e.Combine(tf.Factor, base(e.Stations, fem.Right), baseReactions)
+			// The cases' field on each side of the station itself; the
+			// train's a little beside it, which differs only by its
+			// uniform load over sideShift.
+			jumps := base(e.Stations, fem.Left)
+			left, right := sides[0].Combine(tf.Factor, jumps, nil), sides[1].Combine(tf.Factor, base(e.Stations, fem.Right), nil)
+			for q := range moving.EnvelopeQuantities {
+				scale := 0.0
+				for _, v := range c.Max[q] {
+					scale = max(scale, math.Abs(v))
+				}
+				for s := range e.Stations {
+					b := c.Max[q][s] - tf.Factor*e.Max[q][s] // the right side's field, if the factor is positive
+					if tf.Factor < 0 {
+						b = c.Max[q][s] - tf.Factor*e.Min[q][s]
+					}
+					if math.Abs(jumps[q][s]-b) <= 1e-12*scale {
+						continue // no jump: the station's own values hold
+					}
+					c.Max[q][s], c.MaxAt[q][s] = left.Max[q][s], left.MaxAt[q][s]
+					if right.Max[q][s] > c.Max[q][s] {
+						c.Max[q][s], c.MaxAt[q][s] = right.Max[q][s], right.MaxAt[q][s]
+					}
+					c.Min[q][s], c.MinAt[q][s] = left.Min[q][s], left.MinAt[q][s]
+					if right.Min[q][s] < c.Min[q][s] {
+						c.Min[q][s], c.MinAt[q][s] = right.Min[q][s], right.MinAt[q][s]
+					}
+				}
+			}
+			tc := TrainCombination{Combination: cb.Name, Factor: tf.Factor, Envelope: c}
+			for _, q := range moving.EnvelopeQuantities {
+				hi, lo := c.Worst(q)
+				tc.Worst = append(tc.Worst, QuantityWorst{Quantity: q, Largest: trainExtreme(hi), Smallest: trainExtreme(lo)})
+			}
+			out = append(out, tc)
+		}
+	}
+	return out, nil
+}
+
+// sideShift is how far, relative to the member, a station is moved to
+// either side of a jump: far beyond the distance within which an axle
+// stands on a station (1e-9 of the length), small against any stretch.
+const sideShift = 1e-6
+
+// sideStations are the stations moved by sideShift of the length L to
+// their left and to their right, kept on the member.
+func sideStations(stations []float64, L float64) [2][]float64 {
+	h := sideShift * L
+	var out [2][]float64
+	for _, x := range stations {
+		out[0] = append(out[0], max(x-h, 0))
+		out[1] = append(out[1], min(x+h, L))
+	}
+	return out
 }
 
 func trainExtreme(e moving.Extreme) TrainExtreme {
@@ -220,6 +351,17 @@ type TrainJSON struct {
 	Worst     []QuantityWorst    `json:"worst,omitempty"`
 	Reactions []ReactionJSON     `json:"reactions,omitempty"`
 	Envelope  *TrainEnvelopeJSON `json:"envelope,omitempty"`
+	// Combinations are the combinations that take the train
+	// (TrainCombination).
+	Combinations []TrainCombinationJSON `json:"combinations,omitempty"`
+}
+
+// TrainCombinationJSON is a combination that takes the train: its name,
+// the train's factor and the extremes of every quantity.
+type TrainCombinationJSON struct {
+	Combination string          `json:"combination"`
+	Factor      float64         `json:"factor"`
+	Worst       []QuantityWorst `json:"worst"`
 }
 
 // TargetJSON are a train's extremes of the influence command's target.
@@ -281,6 +423,9 @@ func TrainsJSON(m *fem.Model, rs []TrainResult, stations bool) []TrainJSON {
 			}
 			if stations {
 				j.Envelope = envelopeJSON(e)
+			}
+			for _, c := range r.Combinations {
+				j.Combinations = append(j.Combinations, TrainCombinationJSON{Combination: c.Combination, Factor: c.Factor, Worst: c.Worst})
 			}
 		}
 		out = append(out, j)

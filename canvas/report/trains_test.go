@@ -1,0 +1,84 @@
+package report
+
+import (
+	"math"
+	"testing"
+
+	"stave/fem"
+	"stave/fem/moving"
+	"stave/storage"
+)
+
+// A train in a combination, factor 1.5 on top of the combination's case at
+// 1.35: every extreme of the combination equals the member solved in closed
+// form with the case's loads times 1.35 and the train's axles times 1.5 at
+// the governing position (superposition: the fields are linear in the
+// loads), and the file keeps the train's factor through saving.
+func TestTrainInACombination(t *testing.T) {
+	p, err := storage.Load("../../testdata/two_span_cases.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	p.Trains = []moving.Train{{Name: "trolley", Axles: []moving.Axle{{Load: 12e3}, {Load: 12e3, Spacing: 1.2}}, Step: 0.05}}
+	p.Model.Combinations = append(p.Model.Combinations, fem.Combination{Name: "with trolley", Kind: fem.Strength,
+		Factors: []fem.CaseFactor{{Case: 0, Factor: 1.35}}, Trains: []fem.TrainFactor{{Train: 0, Factor: 1.5}}})
+
+	data, err := storage.Marshal(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	back, err := storage.Unmarshal(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if cb := back.Model.Combinations[len(back.Model.Combinations)-1]; len(cb.Trains) != 1 || cb.Trains[0] != (fem.TrainFactor{Train: 0, Factor: 1.5}) {
+		t.Fatalf("saved and loaded, the combination takes trains %+v, want the trolley at 1.5", cb.Trains)
+	}
+
+	rs, err := TrainEnvelopes(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(rs) != 1 || len(rs[0].Combinations) != 1 {
+		t.Fatalf("got %d trains, want 1 with 1 combination", len(rs))
+	}
+	c := rs[0].Combinations[0]
+	if c.Combination != "with trolley" || c.Factor != 1.5 || len(c.Worst) != len(moving.EnvelopeQuantities) {
+		t.Fatalf("combination %q factor %g with %d extremes", c.Combination, c.Factor, len(c.Worst))
+	}
+	own := p.Model.LoadSet(0)
+	for _, w := range c.Worst {
+		for _, ex := range []TrainExtreme{w.Largest, w.Smallest} {
+			m := own.Clone()
+			for i := range m.DistributedLoad {
+				for k := range m.DistributedLoad[i].Points {
+					m.DistributedLoad[i].Points[k].Intensity *= 1.35
+				}
+			}
+			d, _ := moving.ParseDirection(ex.Direction)
+			axles, _ := p.Trains[0].Loads(moving.Placement{Direction: d, Front: ex.Front})
+			for _, a := range axles {
+				a.Transverse *= 1.5
+				m.PointLoads = append(m.PointLoads, a)
+			}
+			e, err := fem.SolveExact(&m)
+			if err != nil {
+				t.Fatal(err)
+			}
+			l, r := e.At(ex.X, fem.Left), e.At(ex.X, fem.Right)
+			want := []float64{w.Quantity.Of(&l), w.Quantity.Of(&r)}
+			scale := math.Max(math.Abs(w.Largest.Value), math.Abs(w.Smallest.Value))
+			if math.Min(math.Abs(ex.Value-want[0]), math.Abs(ex.Value-want[1])) > 1e-9*scale {
+				t.Errorf("%s: %.10g at x = %g with the front at %g %s; solved there: %.10g | %.10g", w.Quantity, ex.Value, ex.X, ex.Front, ex.Direction, want[0], want[1])
+			}
+		}
+	}
+	// The trolley alone: the combination's moment over the middle support
+	// is worse than 1.35 times the case's own −wL²/8 = −20 kN·m (two equal
+	// spans under a uniform load, beam tables, from memory).
+	for _, w := range c.Worst {
+		if w.Quantity == fem.QBendingMoment && !(w.Smallest.Value < -1.35*20e3) {
+			t.Errorf("smallest moment %g N·m, want below 1.35 × −20 kN·m", w.Smallest.Value)
+		}
+	}
+}
