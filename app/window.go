@@ -283,6 +283,10 @@ func (w *Window) keepSelectionValid() {
 		ok = r.Index < len(m.Supports)
 	case canvas.PointLoad:
 		ok = r.Index < len(m.PointLoads)
+	case canvas.Hinge:
+		ok = r.Index < len(m.Hinges)
+	case canvas.Foundation:
+		ok = r.Index < len(m.Foundations)
 	case canvas.DistributedLoad:
 		ok = r.Index < len(m.DistributedLoad)
 	case canvas.LoadVertex:
@@ -520,7 +524,13 @@ func (w *Window) dragModel(m *fem.Model, g *gesture, p fyne.Position) error {
 		m.Supports[r.Index].X = x
 	case canvas.PointLoad:
 		m.PointLoads[r.Index].X = x
-	case canvas.MemberEnd:
+	case canvas.Hinge:
+		m.Hinges[r.Index].X = x
+	case canvas.Foundation:
+		// Sideways, its start snapped, its length kept.
+		was := g.before.Foundations[r.Index]
+		shift := d.sideways(g, p, was.Start, r)
+		m.Foundations[r.Index].Start, m.Foundations[r.Index].End = was.Start+shift, was.End+shift
 		s := snapper{grid: w.gridStep(d.metresPerPixel())}
 		return setLength(m, s.snap(d.view.ToModelX(p.X)))
 	case canvas.Segment:
@@ -530,8 +540,7 @@ func (w *Window) dragModel(m *fem.Model, g *gesture, p fyne.Position) error {
 		m.Segments[r.Index].End, m.Segments[r.Index+1].Start = x, x
 	case canvas.DistributedLoad:
 		pts := m.DistributedLoad[r.Index].Points
-		first := g.before.DistributedLoad[r.Index].Points[0].X
-		shift := d.snapX(d.view.ToScreenX(first)+p.X-g.start.X, r) - first
+		shift := d.sideways(g, p, g.before.DistributedLoad[r.Index].Points[0].X, r)
 		for i := range pts {
 			pts[i].X += shift
 		}
@@ -552,6 +561,13 @@ func (w *Window) dragModel(m *fem.Model, g *gesture, p fyne.Position) error {
 		}
 	}
 	return nil
+}
+
+// sideways is how far, m, the drag g to p carries an item whose start was
+// at x when it began, with the start snapped (r, the item, snaps to none of
+// its own points).
+func (d *drawing) sideways(g *gesture, p fyne.Position, x float64, r canvas.Ref) float64 {
+	return d.snapX(d.view.ToScreenX(x)+p.X-g.start.X, r) - x
 }
 
 // roundLoad keeps dragged intensities to three significant figures: a drag
