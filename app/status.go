@@ -1,0 +1,82 @@
+package app
+
+import (
+	"errors"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/widget"
+
+	"stave/canvas"
+	"stave/fem"
+)
+
+// statusLine is the window's message line. When its message names a
+// problem of one item of the model, a click on it selects that item.
+type statusLine struct {
+	widget.Label
+	at canvas.Ref // the item the message is about; Kind None for none
+	w  *Window
+}
+
+func newStatusLine(w *Window) *statusLine {
+	s := &statusLine{w: w}
+	s.Truncation = fyne.TextTruncateEllipsis
+	s.ExtendBaseWidget(s)
+	return s
+}
+
+// Tapped selects the item the message is about, if it is still there.
+func (s *statusLine) Tapped(*fyne.PointEvent) {
+	if r := s.at; r.Kind != canvas.None && r.Index < count(&s.w.project.Model, r.Kind) {
+		s.w.selectItem(r)
+	}
+}
+
+// locate points the message line at the item of the first problem in
+// err, the validation error of cand, an edit of the window's model that
+// was refused, and says that a click selects it. An item is pointed at
+// only where the edit kept the number of its kind, so that its index
+// names the same item in the model the window keeps.
+func (s *statusLine) locate(err error, cand *fem.Model) {
+	var invalid *fem.ValidationError
+	if !errors.As(err, &invalid) {
+		return
+	}
+	for _, p := range invalid.Problems {
+		r := refOf(p.Item)
+		if r.Kind != canvas.None && r.Index < count(cand, r.Kind) && count(cand, r.Kind) == count(&s.w.project.Model, r.Kind) {
+			s.at = r
+			s.SetText(s.Text + " (click here to select " + describe(r) + ")")
+			return
+		}
+	}
+}
+
+// refOf is the part of the drawing that shows item it, Kind None for an
+// item the drawing does not show by itself (the model, the mesh, a case, a
+// combination, a load of a case not being edited).
+func refOf(it fem.Item) canvas.Ref {
+	if it.Index < 0 {
+		return canvas.Ref{}
+	}
+	switch it.Kind {
+	case fem.SegmentItem:
+		return canvas.Ref{Kind: canvas.Segment, Index: it.Index}
+	case fem.SupportItem:
+		return canvas.Ref{Kind: canvas.Support, Index: it.Index}
+	case fem.HingeItem:
+		return canvas.Ref{Kind: canvas.Hinge, Index: it.Index}
+	case fem.FoundationItem:
+		return canvas.Ref{Kind: canvas.Foundation, Index: it.Index}
+	}
+	if it.Case != 0 {
+		return canvas.Ref{}
+	}
+	switch it.Kind {
+	case fem.PointLoadItem:
+		return canvas.Ref{Kind: canvas.PointLoad, Index: it.Index}
+	case fem.DistributedLoadItem:
+		return canvas.Ref{Kind: canvas.DistributedLoad, Index: it.Index}
+	}
+	return canvas.Ref{}
+}
