@@ -217,7 +217,7 @@ func TestFreeMotionStiffnessMakesAMixedSupport(t *testing.T) {
 func TestSegmentThermalAndShearRoundTrip(t *testing.T) {
 	w, q := newTestWindow(t, twoSpans())
 	w.selectItem(canvas.Ref{Kind: canvas.Segment})
-	typed := map[string]string{"Temperature difference": "25", "Depth h": "300", "Shear coefficient": "0.8333", "Poisson's ratio": "0.3"}
+	typed := map[string]string{"Temperature ΔT": "25", "Depth h": "300", "Shear coefficient": "0.8333", "Poisson's ratio": "0.3"}
 	for label, text := range typed {
 		fieldEntry(t, w, label).SetText(text)
 	}

@@ -59,7 +59,7 @@ func fieldsFor(m *fem.Model, r canvas.Ref) []field {
 			num("Density", units.Density, func(m *fem.Model) *float64 { return &s(m).Material.Density }),
 			num("Thermal expansion α", units.ThermalExpansion, func(m *fem.Model) *float64 { return &s(m).Material.ThermalExpansion }),
 			num("Allowable stress (0 = none)", units.Stress, func(m *fem.Model) *float64 { return &s(m).Material.Allowable }),
-			num("Temperature difference ΔT (bottom − top)", units.TemperatureChange, func(m *fem.Model) *float64 { return &s(m).TemperatureDifference }),
+			num("Temperature ΔT (bottom − top)", units.TemperatureChange, func(m *fem.Model) *float64 { return &s(m).TemperatureDifference }),
 			num("Depth h (0 = 2c)", units.Dimension, func(m *fem.Model) *float64 { return &s(m).Section.Depth }),
 			// Shown with shear deformation off too, so they can be typed
 			// before it is switched on (it needs them).
@@ -335,14 +335,14 @@ func (c *controls) choices(r canvas.Ref) []fyne.CanvasObject {
 		}
 		return []fyne.CanvasObject{container.NewBorder(nil, nil, widget.NewLabel("Direction"), nil, s)}
 	case canvas.Segment:
-		return []fyne.CanvasObject{c.toggle("Shear deformation (a Timoshenko beam: shear adds to the deflection)",
+		return []fyne.CanvasObject{c.toggle("Shear deformation (Timoshenko beam)",
 			m.Segments[r.Index].ShearDeformation, fmt.Sprintf("shear deformation of segment %d", r.Index+1),
 			func(m *fem.Model) *bool { return &m.Segments[r.Index].ShearDeformation })}
 	case canvas.None, canvas.Member, canvas.MemberEnd:
 		if len(m.Segments) == 0 {
 			return nil
 		}
-		return []fyne.CanvasObject{c.toggle("Axial only (a tie or strut: no bending)", m.AxialOnly, "axial only",
+		return []fyne.CanvasObject{c.toggle("Axial only (tie or strut)", m.AxialOnly, "axial only",
 			func(m *fem.Model) *bool { return &m.AxialOnly })}
 	}
 	return nil

@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"stave/fem"
+	"stave/fem/units"
 )
 
 // scenePoints counts the coordinates a renderer must handle.
@@ -301,7 +302,8 @@ func TestHitTestHingeAndFoundation(t *testing.T) {
 	if !hasColour(Build(in, v), selectedColour, v.ToScreenX(1), v.ToScreenX(3.5)) {
 		t.Errorf("a selected foundation is not drawn in the selection colour")
 	}
-	if !hasText(s, "bed 5000 kN/m²") { // 5e6 N/m² in kN/m²
+	carried := units.SI.Format(units.Force, in.Solution.Foundations[0].Force[fem.Transverse])
+	if !hasText(s, "bed 5000 kN/m², Ry "+carried) { // 5e6 N/m² in kN/m², and the solution's share
 		t.Errorf("no modulus label under the foundation among %v", texts(s))
 	}
 }

@@ -819,6 +819,9 @@ func (b *builder) foundation(i int, f fem.Foundation, y float32) {
 	if f.AxialModulus > 0 {
 		text += ", along " + b.format(units.FoundationModulus, f.AxialModulus)
 	}
+	if sol := b.in.Solution; sol != nil && i < len(sol.Foundations) {
+		text += ", Ry " + b.format(units.Force, sol.Foundations[i].Force[fem.Transverse]) // as the supports label theirs
+	}
 	cx := (x0 + x1) / 2
 	b.place(label{lines: []string{text}, size: smallSize, colour: c, optional: true, at: Point{cx, base + 5},
 		spots: []labelSpot{{cx, base + 7, 0.5, 0}, {x0 + 4, base + 7, 0, 0}, {x1 - 4, base + 7, 1, 0}}})
