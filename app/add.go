@@ -67,7 +67,7 @@ var addKinds = []addKind{
 					continue
 				}
 				q := stiffnessKinds[d]
-				fs = append(fs, addField{key: "k" + dof.String(), label: capital(dof.String()) + " stiffness (0 = free)", q: q,
+				fs = append(fs, addField{key: "k" + dof.String(), label: capital(dof.String()) + " stiffness, 0 = free", q: q,
 					place: fem.Place{Property: fem.MotionStiffnessProperty, Dof: dof}, start: f.w.units.Format(q, start[d])})
 			}
 			return fs
@@ -149,7 +149,7 @@ var addKinds = []addKind{
 		name: "Hinge",
 		fields: func(*addForm) []addField {
 			return []addField{positionField,
-				{key: "khinge", label: "Rotational stiffness across it (0 = pure hinge)", q: units.RotationalStiffness,
+				{key: "khinge", label: "Stiffness across it, 0 = pure hinge", q: units.RotationalStiffness,
 					place: fem.Place{Property: fem.StiffnessProperty}, start: "0"}}
 		},
 		item: func(m *fem.Model) fem.Item { return fem.Item{Kind: fem.HingeItem, Index: len(m.Hinges)} },
@@ -169,7 +169,7 @@ var addKinds = []addKind{
 				field("start", "Start x", units.Position, fem.StartProperty, ""),
 				field("end", "End x", units.Position, fem.EndProperty, ""),
 				field("modulus", "Modulus across the member", units.FoundationModulus, fem.ModulusProperty, ""),
-				field("axialmodulus", "Modulus along the member (0 = free)", units.FoundationModulus, fem.AxialModulusProperty, "0"),
+				field("axialmodulus", "Modulus along the member, 0 = free", units.FoundationModulus, fem.AxialModulusProperty, "0"),
 			}
 		},
 		item: func(m *fem.Model) fem.Item { return fem.Item{Kind: fem.FoundationItem, Index: len(m.Foundations)} },
