@@ -353,3 +353,29 @@ func TestRefusedEditLocatesTheItem(t *testing.T) {
 		t.Errorf("a click on a message about nothing selected %v", w.selected.Kind)
 	}
 }
+
+// Each item a problem can lie on maps to the part of the drawing that
+// shows it; items the drawing does not show map to none.
+func TestRefOfItems(t *testing.T) {
+	for _, c := range []struct {
+		name string
+		it   fem.Item
+		want canvas.Ref
+	}{
+		{"segment", fem.Item{Kind: fem.SegmentItem, Index: 1}, canvas.Ref{Kind: canvas.Segment, Index: 1}},
+		{"support", fem.Item{Kind: fem.SupportItem, Index: 2}, canvas.Ref{Kind: canvas.Support, Index: 2}},
+		{"hinge", fem.Item{Kind: fem.HingeItem, Index: 0}, canvas.Ref{Kind: canvas.Hinge}},
+		{"foundation", fem.Item{Kind: fem.FoundationItem, Index: 3}, canvas.Ref{Kind: canvas.Foundation, Index: 3}},
+		{"own point load", fem.Item{Kind: fem.PointLoadItem, Index: 1}, canvas.Ref{Kind: canvas.PointLoad, Index: 1}},
+		{"own distributed load", fem.Item{Kind: fem.DistributedLoadItem}, canvas.Ref{Kind: canvas.DistributedLoad}},
+		{"a load of another case", fem.Item{Kind: fem.PointLoadItem, Index: 1, Case: 2}, canvas.Ref{}},
+		{"the model", fem.Item{Kind: fem.ModelItem, Index: -1}, canvas.Ref{}},
+		{"the mesh", fem.Item{Kind: fem.MeshItem, Index: -1}, canvas.Ref{}},
+		{"a combination", fem.Item{Kind: fem.CombinationItem, Index: 0}, canvas.Ref{}},
+		{"a segment break being added", fem.Item{Kind: fem.SegmentItem, Index: -1}, canvas.Ref{}},
+	} {
+		if got := refOf(c.it); got != c.want {
+			t.Errorf("%s: refOf gives %v %d, want %v %d", c.name, got.Kind, got.Index, c.want.Kind, c.want.Index)
+		}
+	}
+}

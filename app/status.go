@@ -52,31 +52,21 @@ func (s *statusLine) locate(err error, cand *fem.Model) {
 	}
 }
 
+// refKinds are the kinds of drawn part that show the kinds of model item.
+var refKinds = map[fem.ItemKind]canvas.RefKind{
+	fem.SegmentItem: canvas.Segment, fem.SupportItem: canvas.Support,
+	fem.HingeItem: canvas.Hinge, fem.FoundationItem: canvas.Foundation,
+	fem.PointLoadItem: canvas.PointLoad, fem.DistributedLoadItem: canvas.DistributedLoad,
+}
+
 // refOf is the part of the drawing that shows item it, Kind None for an
 // item the drawing does not show by itself (the model, the mesh, a case, a
 // combination, a load of a case not being edited).
 func refOf(it fem.Item) canvas.Ref {
-	if it.Index < 0 {
+	k, ok := refKinds[it.Kind]
+	load := it.Kind == fem.PointLoadItem || it.Kind == fem.DistributedLoadItem
+	if !ok || it.Index < 0 || load && it.Case != 0 {
 		return canvas.Ref{}
 	}
-	switch it.Kind {
-	case fem.SegmentItem:
-		return canvas.Ref{Kind: canvas.Segment, Index: it.Index}
-	case fem.SupportItem:
-		return canvas.Ref{Kind: canvas.Support, Index: it.Index}
-	case fem.HingeItem:
-		return canvas.Ref{Kind: canvas.Hinge, Index: it.Index}
-	case fem.FoundationItem:
-		return canvas.Ref{Kind: canvas.Foundation, Index: it.Index}
-	}
-	if it.Case != 0 {
-		return canvas.Ref{}
-	}
-	switch it.Kind {
-	case fem.PointLoadItem:
-		return canvas.Ref{Kind: canvas.PointLoad, Index: it.Index}
-	case fem.DistributedLoadItem:
-		return canvas.Ref{Kind: canvas.DistributedLoad, Index: it.Index}
-	}
-	return canvas.Ref{}
+	return canvas.Ref{Kind: k, Index: it.Index}
 }
