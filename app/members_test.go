@@ -379,3 +379,26 @@ func TestRefOfItems(t *testing.T) {
 		}
 	}
 }
+
+// A support made of a kind that holds a motion rigidly drops its spring on
+// that motion, and keeps those on the motions still free.
+func TestSupportKindChangeKeepsFreeSprings(t *testing.T) {
+	p := twoSpans()
+	p.Model.Supports[2] = fem.Support{X: 8, Kind: fem.Spring, Stiffness: [3]float64{0, 1e6, 2e5}}
+	w, _ := newTestWindow(t, p)
+	w.selectItem(canvas.Ref{Kind: canvas.Support, Index: 2})
+	var kind *widget.Select
+	for _, o := range test.LaidOutObjects(w.ui.properties) {
+		if s, ok := o.(*widget.Select); ok {
+			kind = s
+		}
+	}
+	if kind == nil {
+		t.Fatal("no kind choice in the support's panel")
+	}
+	kind.SetSelected("roller")
+	got := w.Model().Supports[2]
+	if want := (fem.Support{X: 8, Kind: fem.Roller, Stiffness: [3]float64{0, 0, 2e5}}); got != want {
+		t.Errorf("after choosing roller the support is %+v, want %+v (%s)", got, want, w.status.Text)
+	}
+}

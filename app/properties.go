@@ -307,7 +307,13 @@ func (c *controls) choices(r canvas.Ref) []fyne.CanvasObject {
 			k, _ := fem.ParseSupportKind(name)
 			if k != w.project.Model.Supports[r.Index].Kind {
 				w.apply(fmt.Sprintf("make %s %s", describe(r), name), func(m *fem.Model) error {
-					m.Supports[r.Index].Kind = k
+					s := &m.Supports[r.Index]
+					s.Kind = k
+					for d := range s.Stiffness { // a spring where the kind now holds rigidly goes
+						if k.Restrains(fem.Dof(d)) {
+							s.Stiffness[d] = 0
+						}
+					}
 					return nil
 				})
 			}
