@@ -338,7 +338,7 @@ func TestRefusedEditLocatesTheItem(t *testing.T) {
 		if w.apply(c.name, func(m *fem.Model) error { c.change(m); return nil }) == nil {
 			t.Fatalf("%s was applied", c.name)
 		}
-		if got := w.status.Text; !strings.Contains(got, c.says) || !strings.Contains(got, "click here to select "+c.says) {
+		if got := w.status.Text; !strings.Contains(got, c.says) || !strings.HasPrefix(got, "Click here to select "+c.says) {
 			t.Errorf("%s: the message line says %q", c.name, got)
 		}
 		test.Tap(w.status)

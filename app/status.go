@@ -46,7 +46,8 @@ func (s *statusLine) locate(err error, cand *fem.Model) {
 		r := refOf(p.Item)
 		if r.Kind != canvas.None && r.Index < count(cand, r.Kind) && count(cand, r.Kind) == count(&s.w.project.Model, r.Kind) {
 			s.at = r
-			s.SetText(s.Text + " (click here to select " + describe(r) + ")")
+			// First, where a long message's end would be cut off.
+			s.SetText("Click here to select " + describe(r) + " — " + s.Text)
 			return
 		}
 	}
