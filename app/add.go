@@ -67,7 +67,7 @@ var addKinds = []addKind{
 					continue
 				}
 				q := stiffnessKinds[d]
-				fs = append(fs, addField{key: "k" + dof.String(), label: capital(dof.String()) + " stiffness, 0 = free", q: q,
+				fs = append(fs, addField{key: "k" + dof.String(), label: stiffnessNames[d] + ", 0 = free", q: q,
 					place: fem.Place{Property: fem.MotionStiffnessProperty, Dof: dof}, start: f.w.units.Format(q, start[d])})
 			}
 			return fs
@@ -194,8 +194,12 @@ var addKinds = []addKind{
 	},
 }
 
-// stiffnessKinds are the kinds of a support's stiffness per motion.
-var stiffnessKinds = [3]units.Kind{units.TranslationalStiffness, units.TranslationalStiffness, units.RotationalStiffness}
+// stiffnessKinds and stiffnessNames are the kinds and names of a support's
+// stiffness per motion.
+var (
+	stiffnessKinds = [3]units.Kind{units.TranslationalStiffness, units.TranslationalStiffness, units.RotationalStiffness}
+	stiffnessNames = [3]string{"Axial stiffness", "Transverse stiffness", "Rotational stiffness"}
+)
 
 var momentField = addField{key: "moment", label: "Moment (+ counter-clockwise)", q: units.Moment, place: fem.Place{Property: fem.MomentProperty}, start: "0"}
 

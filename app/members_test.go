@@ -190,7 +190,7 @@ func TestFreeMotionStiffnessMakesAMixedSupport(t *testing.T) {
 	seg := p.Model.Segments[0]
 	ei, l := seg.Material.Elastic*seg.Section.SecondMoment, 8.0
 	k := 3 * ei / l
-	e := fieldEntry(t, w, "Rotation stiffness")
+	e := fieldEntry(t, w, "Rotational stiffness")
 	text := strconv.FormatFloat(k/1e3, 'g', -1, 64) + " kN·m/rad"
 	e.SetText(text)
 	e.OnSubmitted(text)
@@ -207,7 +207,7 @@ func TestFreeMotionStiffnessMakesAMixedSupport(t *testing.T) {
 	if m := math.Abs(s.Reactions[1].Force[fem.Rotation]); math.Abs(m-40e3) > 1e-6*40e3 {
 		t.Errorf("the spring holds %g N·m at the roller, want qL²/16 = 40 kN·m", m)
 	}
-	for _, label := range []string{"Settlement transverse", "Axial stiffness", "Rotation stiffness"} {
+	for _, label := range []string{"Settlement transverse", "Axial stiffness", "Rotational stiffness"} {
 		fieldEntry(t, w, label) // a roller holds deflection rigidly, the rest elastically or not
 	}
 }

@@ -79,7 +79,7 @@ func fieldsFor(m *fem.Model, r canvas.Ref) []field {
 			if k.Restrains(dof) {
 				fs = append(fs, num("Settlement "+dof.String(), q, func(m *fem.Model) *float64 { return &s(m).Settlement[d] }))
 			} else {
-				fs = append(fs, num(capital(dof.String())+" stiffness (0 = free)", stiffnessKinds[d], func(m *fem.Model) *float64 { return &s(m).Stiffness[d] }))
+				fs = append(fs, num(stiffnessNames[d]+" (0 = free)", stiffnessKinds[d], func(m *fem.Model) *float64 { return &s(m).Stiffness[d] }))
 			}
 		}
 		return fs
