@@ -21,6 +21,35 @@ var csvPreamble = []string{
 	"# N tension positive; M sagging positive (M = EI w''); V = dM/dx; stresses tension positive, bending in the bottom fibre.",
 }
 
+// groundColumn is a column of what the foundations carry, per unit length
+// of member: the force of the ground on the member, −modulus × displacement.
+type groundColumn struct {
+	Column       string
+	modulus      func(fem.Foundation) float64 // N/m²
+	displacement func(*fem.Fields) float64    // m
+}
+
+// groundColumns are the results table's ground columns, taken for a model
+// whose foundations have any modulus of that kind.
+var groundColumns = []groundColumn{
+	{"ground across", func(f fem.Foundation) float64 { return f.Modulus }, func(f *fem.Fields) float64 { return f.Deflection }},
+	{"ground along", func(f fem.Foundation) float64 { return f.AxialModulus }, func(f *fem.Fields) float64 { return f.AxialDisplacement }},
+}
+
+// groundOf are the ground columns of model m.
+func groundOf(m *fem.Model) []groundColumn {
+	var out []groundColumn
+	for _, g := range groundColumns {
+		for _, f := range m.Foundations {
+			if g.modulus(f) > 0 {
+				out = append(out, g)
+				break
+			}
+		}
+	}
+	return out
+}
+
 // Points per element of the results table by default (DefaultCSVPoints):
 // four intervals per element up to csvRows rows in all, fewer on larger
 // meshes, and never fewer than one (both ends of every element, so every
@@ -44,7 +73,9 @@ func DefaultCSVPoints(elements int) int {
 // in the display units of u (SI when u is the zero System), after a preamble
 // of comment lines that states the unit system and the units of every
 // column, and then the lines of notes as comment lines (the results with
-// their checks and warnings, say; a table travels without the window). An element's start is read from the right and its end from the
+// their checks and warnings, say; a table travels without the window).
+// With foundations, columns of the ground's force on the member per unit
+// length follow the quantities. An element's start is read from the right and its end from the
 // left, so jumps show as two rows at one x. The table is streamed: it is
 // formatted in chunks of elements walked in order (fem.Solution.Elements),
 // into a few reused buffers, so memory does not grow with the mesh.
@@ -60,10 +91,14 @@ func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perEle
 	}
 	out := bufio.NewWriterSize(w, 64<<10)
 	qs := fem.Quantities()
+	ground := groundOf(&s.Model)
 	for _, line := range csvPreamble {
 		out.WriteString(line + "\n")
 	}
-	out.WriteString(csvUnitsLine(u, qs) + "\n")
+	if len(ground) > 0 {
+		out.WriteString("# Ground: the force per unit length the foundations exert on the member, up and along +x positive.\n")
+	}
+	out.WriteString(csvUnitsLine(u, qs, ground) + "\n")
 	fmt.Fprintf(out, "# Each element at %d evenly spaced points (%d intervals), both ends included.\n", perElement+1, perElement)
 	for _, line := range notes {
 		out.WriteString(strings.TrimRight("# "+line, " ") + "\n")
@@ -77,12 +112,20 @@ func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perEle
 			header = append(header, fmt.Sprintf("%s exact [%s]", c.Column, sym))
 		}
 	}
+	for _, g := range ground {
+		sym := u.Unit(units.LineLoad).Symbol
+		header = append(header, fmt.Sprintf("%s FE [%s]", g.Column, sym))
+		if e != nil {
+			header = append(header, fmt.Sprintf("%s exact [%s]", g.Column, sym))
+		}
+	}
 	cw := csv.NewWriter(out)
 	if err := cw.Write(header); err != nil {
 		return err
 	}
 	cw.Flush()
-	t := csvTable{s: s, e: e, perElement: perElement, position: u.Unit(units.Position).ToSI, qs: qs}
+	t := csvTable{s: s, e: e, perElement: perElement, position: u.Unit(units.Position).ToSI, qs: qs,
+		ground: ground, lineLoad: u.Unit(units.LineLoad).ToSI}
 	for _, q := range qs {
 		t.divisor = append(t.divisor, u.Unit(q.Info().Unit).ToSI)
 	}
@@ -101,6 +144,8 @@ type csvTable struct {
 	// Display value = SI value / ToSI, as units.System.ToDisplay computes it.
 	position float64
 	divisor  []float64
+	ground   []groundColumn
+	lineLoad float64 // the ground columns' ToSI
 }
 
 // csvChunkRows is about how many rows one chunk of a table holds: four
@@ -154,9 +199,9 @@ func (t *csvTable) stream(w io.Writer) error {
 // columns is the number of columns of the table.
 func (t *csvTable) columns() int {
 	if t.e != nil {
-		return 1 + 2*len(t.qs)
+		return 1 + 2*(len(t.qs)+len(t.ground))
 	}
-	return 1 + len(t.qs)
+	return 1 + len(t.qs) + len(t.ground)
 }
 
 // rows appends the rows of elements from ≤ i < to to buf: at each element's
@@ -164,8 +209,19 @@ func (t *csvTable) columns() int {
 // left.
 func (t *csvTable) rows(buf []byte, from, to int) []byte {
 	var fe, ex fem.Fields
+	moduli := make([]float64, len(t.ground))
 	for el := range t.s.Elements(t.e, from, to) {
 		h := el.End - el.Start
+		// Foundation ends are nodes: an element lies on a foundation or off it.
+		mid := el.Start + 0.5*h
+		for i, g := range t.ground {
+			moduli[i] = 0
+			for _, f := range t.s.Model.Foundations {
+				if mid > f.Start && mid < f.End {
+					moduli[i] += g.modulus(f)
+				}
+			}
+		}
 		for j := 0; j <= t.perElement; j++ {
 			x, xi := el.Start+h*float64(j)/float64(t.perElement), 1.0
 			if j < t.perElement {
@@ -184,6 +240,14 @@ func (t *csvTable) rows(buf []byte, from, to int) []byte {
 					buf = strconv.AppendFloat(buf, q.Of(&ex)/t.divisor[i], 'g', -1, 64)
 				}
 			}
+			for i, g := range t.ground {
+				buf = append(buf, ',')
+				buf = strconv.AppendFloat(buf, -moduli[i]*g.displacement(&fe)/t.lineLoad, 'g', -1, 64)
+				if t.e != nil {
+					buf = append(buf, ',')
+					buf = strconv.AppendFloat(buf, -moduli[i]*g.displacement(&ex)/t.lineLoad, 'g', -1, 64)
+				}
+			}
 			buf = append(buf, '\n')
 		}
 	}
@@ -191,12 +255,15 @@ func (t *csvTable) rows(buf []byte, from, to int) []byte {
 }
 
 // csvUnitsLine states the unit system and the unit of every column.
-func csvUnitsLine(u units.System, qs []fem.Quantity) string {
+func csvUnitsLine(u units.System, qs []fem.Quantity, ground []groundColumn) string {
 	var b strings.Builder
 	fmt.Fprintf(&b, "# Units: %s. x in %s", u.Name, u.Unit(units.Position).Symbol)
 	for _, q := range qs {
 		c := q.Info()
 		fmt.Fprintf(&b, "; %s in %s", c.Column, u.Unit(c.Unit).Symbol)
+	}
+	for _, g := range ground {
+		fmt.Fprintf(&b, "; %s in %s", g.Column, u.Unit(units.LineLoad).Symbol)
 	}
 	return b.String() + "."
 }

@@ -3,9 +3,12 @@ package canvas
 import (
 	"bufio"
 	"bytes"
+	"encoding/csv"
 	"fmt"
 	"io"
+	"math"
 	"runtime"
+	"slices"
 	"strings"
 	"testing"
 
@@ -110,4 +113,53 @@ type countingDiscard int
 func (c *countingDiscard) Write(p []byte) (int, error) {
 	*c += countingDiscard(len(p))
 	return len(p), nil
+}
+
+// With a foundation the table adds the ground's force per unit length,
+// finite element and exact. A free beam on a foundation along its whole
+// length under a uniform load q sinks evenly, w = q/k, so the ground
+// pushes back with −k·w = −q everywhere (statics); the cubic elements
+// hold a constant exactly. A model without foundations has no such column.
+func TestWriteCSVGround(t *testing.T) {
+	const q, k, L = -20e3, 2e7, 8.0 // N/m, N/m², m
+	m := &fem.Model{
+		Segments:        []fem.Segment{{Start: 0, End: L, Section: fem.Section{Area: 0.3, SecondMoment: 6e-3, FibreDistance: 0.25}, Material: fem.Material{Elastic: 30e9}}},
+		Supports:        []fem.Support{{X: L / 2, Kind: fem.AxialOnly}},
+		Foundations:     []fem.Foundation{{Start: 0, End: L, Modulus: k}},
+		DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: q}, {X: L, Intensity: q}}}},
+		Mesh:            fem.MeshSettings{Elements: 8},
+	}
+	in := solved(t, m)
+	var buf bytes.Buffer
+	if err := WriteCSV(&buf, in.Solution, in.Exact, units.SI, 2, nil); err != nil {
+		t.Fatal(err)
+	}
+	r := csv.NewReader(&buf)
+	r.Comment = '#'
+	rows, err := r.ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	fe, ex := slices.Index(rows[0], "ground across FE [kN/m]"), slices.Index(rows[0], "ground across exact [kN/m]")
+	if fe < 0 || ex < 0 || slices.ContainsFunc(rows[0], func(s string) bool { return strings.HasPrefix(s, "ground along") }) {
+		t.Fatalf("header %q: want the ground across, FE and exact, and nothing along", rows[0])
+	}
+	if len(rows) != 1+8*3 {
+		t.Fatalf("%d rows, want a header and 3 points in each of 8 elements", len(rows))
+	}
+	for _, row := range rows[1:] {
+		for _, c := range []int{fe, ex} {
+			if v := parse(t, row[c]); math.Abs(v+q/1e3) > 1e-9*math.Abs(q/1e3) {
+				t.Errorf("x = %s: %s is %g kN/m, want %g", row[0], rows[0][c], v, -q/1e3)
+			}
+		}
+	}
+	plain := solved(t, demoModel(4))
+	buf.Reset()
+	if err := WriteCSV(&buf, plain.Solution, plain.Exact, units.SI, 1, nil); err != nil {
+		t.Fatal(err)
+	}
+	if strings.Contains(buf.String(), "ground") {
+		t.Error("a model without foundations has a ground column")
+	}
 }

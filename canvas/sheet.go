@@ -119,7 +119,15 @@ func buildSheet(in SheetInput) *Scene {
 	dw := float32(right - sheetEdge)
 	v := NewView(dw/diagramScale, dh/diagramScale)
 	v.Fit(in.Input.Model)
-	appendScene(b.s, Build(di, v), sheetEdge, sh.y, diagramScale)
+	diagrams := Build(di, v)
+	// Strips that do not fit the height run on below it: shrink them into the box.
+	k := float32(diagramScale)
+	for _, st := range diagrams.Strips {
+		if st.Bottom*diagramScale > dh+1 { // a point's slack: strips end at the box to round-off
+			k = min(k, dh/st.Bottom)
+		}
+	}
+	appendScene(b.s, diagrams, sheetEdge, sh.y, k)
 	b.polygon(color.NRGBA{}, faintColour, 0.5, Point{sheetEdge, sh.y}, Point{right, sh.y}, Point{right, sh.y + dh}, Point{sheetEdge, sh.y + dh})
 	sh.y += dh + 4
 
@@ -167,7 +175,7 @@ func (sh *sheet) reserve(in SheetInput) float32 {
 	if s := in.Input.Solution; s != nil {
 		// The note, two headers, nine extremes, the inside supports'
 		// header, equilibrium, two lines on the mesh and one on the error.
-		h += line*float32(18+len(s.Reactions)+len(s.Model.Supports)) + 9 + 30
+		h += line*float32(18+len(s.Reactions)+len(s.Foundations)+len(s.Model.Supports)) + 9 + 30
 	} else {
 		h += 3*line + 25
 	}
@@ -204,11 +212,25 @@ func (sh *sheet) modelTable(m *fem.Model) {
 	xs := []float32{sheetEdge, sheetEdge + 70}
 	f := sh.b.format
 	var rows [][2]string
+	if m.AxialOnly {
+		rows = append(rows, [2]string{"member", "tie or strut: axial force only, bending not solved"})
+	}
 	for i, s := range m.Segments {
 		rows = append(rows, [2]string{fmt.Sprintf("segment %d", i+1), fmt.Sprintf("%s to %s; A %s, I %s, c %s; E %s %s",
 			f(units.Position, s.Start), f(units.Position, s.End), f(units.Area, s.Section.Area),
 			f(units.SecondMoment, s.Section.SecondMoment), f(units.Dimension, s.Section.FibreDistance),
 			f(units.Modulus, s.Material.Elastic), s.Material.Name)})
+		// What else the segment models, on a line of its own so the row fits.
+		var also []string
+		if s.TemperatureDifference != 0 {
+			also = append(also, "bottom fibre warmer than the top by "+f(units.TemperatureChange, s.TemperatureDifference))
+		}
+		if s.ShearDeformation {
+			also = append(also, "shear deformation (Timoshenko beam)")
+		}
+		if len(also) > 0 {
+			rows = append(rows, [2]string{"", strings.Join(also, "; ")})
+		}
 	}
 	for i, s := range m.Supports {
 		d := fmt.Sprintf("%s at %s", s.Kind, f(units.Position, s.X))
@@ -217,6 +239,24 @@ func (sh *sheet) modelTable(m *fem.Model) {
 				f(units.TranslationalStiffness, s.Stiffness[1]), f(units.RotationalStiffness, s.Stiffness[2]))
 		}
 		rows = append(rows, [2]string{fmt.Sprintf("support %d", i+1), d})
+	}
+	for i, h := range m.Hinges {
+		d := "at " + f(units.Position, h.X) + ": carries no moment"
+		if h.Stiffness > 0 {
+			d = "at " + f(units.Position, h.X) + ": rotational spring " + f(units.RotationalStiffness, h.Stiffness)
+		}
+		rows = append(rows, [2]string{fmt.Sprintf("hinge %d", i+1), d})
+	}
+	for i, g := range m.Foundations {
+		var parts []string
+		if g.Modulus > 0 {
+			parts = append(parts, "modulus "+f(units.FoundationModulus, g.Modulus)+" across")
+		}
+		if g.AxialModulus > 0 {
+			parts = append(parts, f(units.FoundationModulus, g.AxialModulus)+" along")
+		}
+		rows = append(rows, [2]string{fmt.Sprintf("foundation %d", i+1), fmt.Sprintf("%s to %s; %s",
+			f(units.Position, g.Start), f(units.Position, g.End), strings.Join(parts, ", "))})
 	}
 	for i, p := range m.PointLoads {
 		var parts []string
@@ -299,6 +339,19 @@ func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 		}
 		sh.row(cols, xs, sheetSmall, inkColour, false)
 	}
+	// The ground's resultant, at its line of action, and the stretch it
+	// is spread over where a support has its moment.
+	for _, g := range sum.Foundations {
+		cols := []string{fmt.Sprintf("foundation %d (ground)", g.Foundation), f(units.Position, g.Reaction.Centre()), "—", "—",
+			"spread over " + f(units.Position, g.Start) + " to " + f(units.Position, g.End)}
+		if g.Holds[fem.Axial] {
+			cols[2] = value(units.Force, g.Reaction.Force[0], g.FE.Force[0])
+		}
+		if g.Holds[fem.Transverse] {
+			cols[3] = value(units.Force, g.Reaction.Force[1], g.FE.Force[1])
+		}
+		sh.row(cols, xs, sheetSmall, inkColour, false)
+	}
 	sh.y += 3
 	xs = []float32{sheetEdge, sheetEdge + 95, sheetEdge + 160, sheetEdge + 210, sheetEdge + 275, sheetEdge + 340, sheetEdge + 390, sheetEdge + 455}
 	if sum.Exact {
@@ -332,7 +385,11 @@ func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 	}
 	sh.y += 3
 	eq := sum.Equilibrium
-	sh.para(fmt.Sprintf("Equilibrium residual (%s reactions): %s, %s, %s (relative %.1e; FE %.1e)", head, f(units.Force, eq.Residual.Axial),
+	reactions := head + " reactions"
+	if len(sum.Foundations) > 0 {
+		reactions += " of the supports and the ground"
+	}
+	sh.para(fmt.Sprintf("Equilibrium residual (%s): %s, %s, %s (relative %.1e; FE %.1e)", reactions, f(units.Force, eq.Residual.Axial),
 		f(units.Force, eq.Residual.Transverse), f(units.Moment, eq.Residual.Moment), eq.Relative, sum.FEEquilibrium.Relative), inkColour)
 	sh.para(fmt.Sprintf("Mesh: %d elements, %d nodes, bar order %d, condition estimate %.2e. %s",
 		sum.Mesh.Elements, sum.Mesh.Nodes, sum.Mesh.BarOrder, sum.Mesh.Condition, mesh), inkColour)

@@ -28,9 +28,22 @@ type assembly struct {
 // fixedDof is an unknown a rigid restraint holds.
 type fixedDof struct {
 	dof      int
-	support  int
+	support  int // index in Model.Supports, or datum
 	motion   Dof
 	diagonal float64 // the matrix's diagonal there, kept as it was
+}
+
+// datum stands for the support of a restraint that is no support: the
+// axial datum u(0) = 0 of a member that slides free (Model.slidesFree). It
+// is held without settlement and carries no force.
+const datum = -1
+
+// settlementOf is the prescribed motion d of support s, 0 for the datum.
+func settlementOf(settlement [][3]float64, s int, d Dof) float64 {
+	if s == datum {
+		return 0
+	}
+	return settlement[s][d]
 }
 
 // coupling is the entry at row of the column of fixed[fixed] before it was cleared.
@@ -85,6 +98,13 @@ func build(m *Model, nodes []float64, els []elementData, form Formulation) (*ban
 			}
 		}
 	}
+	if m.slidesFree() {
+		for mi, d := range form.Motions() {
+			if d == Axial { // the datum u(0) = 0 (Model.slidesFree)
+				as.fixed = append(as.fixed, fixedDof{dof: form.nodeDof(0, mi), support: datum, motion: d})
+			}
+		}
+	}
 	// Prescribed motions keep the band: the column times the value moves to
 	// the right-hand side, row and column are cleared, and the diagonal keeps
 	// its own value so the scale of the matrix is not disturbed.
@@ -135,10 +155,10 @@ func (as *assembly) rhs(els []elementData, nodal [][3]float64, settlement [][3]f
 	}
 	for _, c := range as.coupling {
 		f := as.fixed[c.fixed]
-		rhs[c.row] -= c.value * settlement[f.support][f.motion]
+		rhs[c.row] -= c.value * settlementOf(settlement, f.support, f.motion)
 	}
 	for _, f := range as.fixed {
-		rhs[f.dof] = f.diagonal * settlement[f.support][f.motion]
+		rhs[f.dof] = f.diagonal * settlementOf(settlement, f.support, f.motion)
 	}
 	return rhs
 }

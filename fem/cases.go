@@ -233,6 +233,7 @@ func CombineSolutions(sols []*Solution, factors []float64) (*Solution, error) {
 		for j := range 3 {
 			out.Equilibrium.Applied[j] += f * s.Equilibrium.Applied[j]
 			out.Equilibrium.Reactions[j] += f * s.Equilibrium.Reactions[j]
+			out.Equilibrium.Ground[j] += f * s.Equilibrium.Ground[j]
 		}
 	}
 	// The thermal strain is a load: combine it too.

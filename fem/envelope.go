@@ -275,10 +275,22 @@ type ReactionEnvelope struct {
 	Max, Min [3]Governing // axial N, transverse N, moment N·m; X is the support's
 }
 
+// FoundationEnvelope is the largest and smallest resultant of the ground's
+// forces under one foundation, along and across the member, over every
+// combination and arrangement.
+type FoundationEnvelope struct {
+	Foundation int     // index into Model.Foundations
+	Start, End float64 // m
+	// Max and Min are along N and across N; their X is the middle of the
+	// foundation.
+	Max, Min [2]Governing
+}
+
 // Envelope is what a walk over the combinations found.
 type Envelope struct {
-	Quantities []QuantityEnvelope // in report order
-	Reactions  []ReactionEnvelope
+	Quantities  []QuantityEnvelope // in report order
+	Reactions   []ReactionEnvelope
+	Foundations []FoundationEnvelope // nil without foundations
 }
 
 // envelopeValues are the values an envelope takes of each solution: the
@@ -511,7 +523,7 @@ func (cs *CombinationSolutions) Envelope() *Envelope {
 		<-done
 		w.join(later)
 	}
-	env := &Envelope{Reactions: cs.reactionEnvelope()}
+	env := &Envelope{Reactions: cs.reactionEnvelope(), Foundations: cs.foundationEnvelope()}
 	for _, q := range Quantities() {
 		var lo, hi Governing
 		if q == QCombinedStress {
@@ -555,24 +567,49 @@ func (cs *CombinationSolutions) reactionEnvelope() []ReactionEnvelope {
 	for i, r := range cs.Fixed[0].Reactions {
 		re := ReactionEnvelope{Support: r.Support, X: r.X}
 		for d := range 3 {
-			for c, s := range cs.Fixed {
-				shares := make([]float64, len(cs.Shares))
-				for j, sh := range cs.Shares {
-					shares[j] = sh.Reactions[i].Force[d]
-				}
-				lo, hi := cs.worst(c, s.Reactions[i].Force[d], shares)
-				lo.X, hi.X = r.X, r.X
-				if c == 0 || lo.Value < re.Min[d].Value {
-					re.Min[d] = lo
-				}
-				if c == 0 || hi.Value > re.Max[d].Value {
-					re.Max[d] = hi
-				}
-			}
+			re.Min[d], re.Max[d] = cs.linearEnvelope(r.X, func(s *Solution) float64 { return s.Reactions[i].Force[d] })
 		}
 		out[i] = re
 	}
 	return out
+}
+
+// foundationEnvelope is the envelope of what every foundation carries;
+// nil without foundations.
+func (cs *CombinationSolutions) foundationEnvelope() []FoundationEnvelope {
+	if len(cs.Fixed[0].Foundations) == 0 {
+		return nil
+	}
+	out := make([]FoundationEnvelope, len(cs.Fixed[0].Foundations))
+	for i, r := range cs.Fixed[0].Foundations {
+		fe := FoundationEnvelope{Foundation: r.Foundation, Start: r.Start, End: r.End}
+		for d := range 2 {
+			fe.Min[d], fe.Max[d] = cs.linearEnvelope(0.5*(r.Start+r.End), func(s *Solution) float64 { return s.Foundations[i].Force[d] })
+		}
+		out[i] = fe
+	}
+	return out
+}
+
+// linearEnvelope is the smallest and largest over every combination and
+// arrangement of a result that is linear in the loads, read from each
+// solution by value, placed at x.
+func (cs *CombinationSolutions) linearEnvelope(x float64, value func(*Solution) float64) (lo, hi Governing) {
+	shares := make([]float64, len(cs.Shares))
+	for j, sh := range cs.Shares {
+		shares[j] = value(sh)
+	}
+	for c, s := range cs.Fixed {
+		l, h := cs.worst(c, value(s), shares)
+		if c == 0 || l.Value < lo.Value {
+			lo = l
+		}
+		if c == 0 || h.Value > hi.Value {
+			hi = h
+		}
+	}
+	lo.X, hi.X = x, x
+	return lo, hi
 }
 
 // worst is the smallest and largest value of combination c at one place,

@@ -419,6 +419,9 @@ func (e *Exact) keyPoints(m *Model, loads *Loads) []keyPoint {
 			}
 		}
 	}
+	if m.slidesFree() {
+		points[0].restraints = append(points[0].restraints, restraint{support: datum, dof: Axial})
+	}
 	for _, h := range m.Hinges {
 		k := &points[e.keyIndex(h.X)]
 		k.hinge = true
@@ -585,7 +588,9 @@ func (e *Exact) store(p odeProblem, l exactLayout, x []float64) {
 		e.solution(p, j).setConstants(x[l.firstCol[j] : l.firstCol[j]+p.order])
 	}
 	for q, r := range l.held {
-		e.reactions[r.support].Force[r.dof] = x[l.heldCol[q]]
+		if r.support != datum {
+			e.reactions[r.support].Force[r.dof] = x[l.heldCol[q]]
+		}
 	}
 }
 

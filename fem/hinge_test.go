@@ -70,13 +70,14 @@ func TestHingeSuspendedSpan(t *testing.T) {
 // an end moment M at the joint, turning by qL³/(24EI) − M·L/(3EI) there, and
 // the joint's spring gives M = k·Δθ with Δθ twice that, so
 // M = (k·qL³/(12EI)) / (1 + 2kL/(3EI)) (slope-deflection, Gere & Goodno,
-// from memory): 0 for a pure hinge and qL²/8 for a rigid joint (the
-// continuous beam, AISC beam diagrams case 29, from memory).
+// from memory): near 0 for a soft joint and qL²/8 for a rigid joint (the
+// continuous beam, AISC beam diagrams case 29, from memory). A pure hinge
+// over the support is refused (TestHingeAtSupportRefused).
 func TestSemiRigidJoint(t *testing.T) {
 	const L, q = 5.0, -10e3
 	ei := testE * testI
 	W := -q
-	for _, k := range []float64{0, 1e-3 * ei / L, ei / L, 1e3 * ei / L} {
+	for _, k := range []float64{1e-3 * ei / L, ei / L, 1e3 * ei / L} {
 		t.Run(fmt.Sprintf("k = %.3g", k), func(t *testing.T) {
 			m := &Model{
 				Segments:        []Segment{testSegment(0, 2*L)},
@@ -129,4 +130,35 @@ func TestHingeMechanism(t *testing.T) {
 	// A rotational spring across the hinge makes it sound again.
 	m.Hinges[0].Stiffness = 1e6
 	mustSolve(t, m)
+}
+
+// A pure hinge at a support that lets the member turn adds nothing the
+// support does not already free, and one at a support that holds the
+// rotation could not say which side it holds: both are refused at the
+// hinge's position.
+func TestHingeAtSupportRefused(t *testing.T) {
+	for _, tc := range []struct {
+		kind SupportKind
+		want string
+	}{
+		{Roller, "a roller support that already lets the member turn"},
+		{Pinned, "a pinned support that already lets the member turn"},
+		{Fixed, "which holds the rotation"},
+	} {
+		m := &Model{
+			Segments:   []Segment{testSegment(0, 8)},
+			Supports:   []Support{{X: 0, Kind: Pinned}, {X: 4, Kind: tc.kind}, {X: 8, Kind: Roller}},
+			Hinges:     []Hinge{{X: 4}},
+			PointLoads: []PointLoad{{X: 2, Transverse: -1e3}},
+		}
+		var ve *ValidationError
+		err := m.Validate()
+		if !errors.As(err, &ve) || !strings.Contains(err.Error(), "hinge 1 is at support 2 (x = 4.0 m), "+tc.want) {
+			t.Errorf("%s: got %v, want a refusal naming hinge 1 at support 2", tc.kind, err)
+			continue
+		}
+		if p := ve.Problems[0].Place; p.Item != (Item{Kind: HingeItem, Index: 0}) || p.Property != PositionProperty {
+			t.Errorf("%s: the refusal is placed at %+v, want hinge 1's position", tc.kind, p)
+		}
+	}
 }

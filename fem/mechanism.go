@@ -51,7 +51,7 @@ func checkMechanism(m *Model, bending bool) error {
 		ground = ground || f.Modulus > 0
 	}
 	switch {
-	case !axial:
+	case !axial && !m.slidesFree():
 		return &MechanismError{Motion: "axial", Message: "the member can slide along its axis: add an axial restraint (pinned, fixed, axial or spring support)"}
 	case !bending:
 		return nil

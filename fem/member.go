@@ -1,6 +1,9 @@
 package fem
 
-import "sync"
+import (
+	"errors"
+	"sync"
+)
 
 // Member is a model made ready for solving: validated once, its key points
 // found and its loads gathered once. Every solve of a model starts from one,
@@ -42,6 +45,11 @@ func Prepare(m *Model) (*Member, error) {
 	}
 	p.bending = !m.AxialOnly && (bends || holdsAcross(m))
 	p.mechanism = checkMechanism(m, p.bending)
+	var me *MechanismError
+	if p.bending && !bends && errors.As(p.mechanism, &me) && me.Motion != "axial" {
+		// Nothing loads the member across: it may be meant as a tie or strut.
+		me.Message += ", or, for a tie or strut that nothing loads across, declare the member axial-only"
+	}
 	return p, nil
 }
 
@@ -53,6 +61,68 @@ func Prepare(m *Model) (*Member, error) {
 // reported, and the supports need not hold it sideways (a tie on two axial
 // supports is no mechanism).
 func (p *Member) Bending() bool { return p.bending }
+
+// slidesFree reports whether the member lies on a foundation across it,
+// nothing holds it along its axis (no support, no foundation's axial
+// modulus) and nothing pushes it along (no axial point or line load, no
+// self-weight along it, in the model or any case): a ground beam on its bed
+// under loads across it. Its axial rigid slide is then free and unloaded,
+// so the axial displacement is measured from x = 0 (u(0) = 0, a datum that
+// carries no force) rather than the member refused as a mechanism. A
+// member on supports alone still needs one that holds it along.
+func (m *Model) slidesFree() bool {
+	bed := false
+	for _, f := range m.Foundations {
+		bed = bed || f.Modulus > 0
+	}
+	if !bed {
+		return false
+	}
+	for _, s := range m.Supports {
+		if s.Holds(Axial) {
+			return false
+		}
+	}
+	for _, f := range m.Foundations {
+		if f.AxialModulus > 0 {
+			return false
+		}
+	}
+	pushes := func(points []PointLoad, lines []DistributedLoad) bool {
+		for _, p := range points {
+			if p.Axial != 0 {
+				return true
+			}
+		}
+		for _, d := range lines {
+			if d.Direction != Axial {
+				continue
+			}
+			for _, v := range d.Points {
+				if v.Intensity != 0 {
+					return true
+				}
+			}
+		}
+		return false
+	}
+	if pushes(m.PointLoads, m.DistributedLoad) {
+		return false
+	}
+	for _, c := range m.Cases {
+		if pushes(c.PointLoads, c.DistributedLoad) {
+			return false
+		}
+	}
+	if m.Gravity[Axial] != 0 {
+		for _, s := range m.Segments {
+			if s.Material.Density != 0 {
+				return false
+			}
+		}
+	}
+	return true
+}
 
 // holdsAcross reports whether any support holds the member across it or in
 // rotation, rigidly or by a spring, or a foundation holds it across.

@@ -2,6 +2,7 @@ package fem
 
 import (
 	"fmt"
+	"strings"
 
 	"stave/fem/units"
 )
@@ -82,18 +83,22 @@ func (q Quantity) String() string {
 	return "unknown quantity"
 }
 
-// MarshalText writes q as its Field name, as JSON summaries name it.
+// Key is q's name as JSON documents give it: its Name in snake_case,
+// "bending_moment".
+func (q Quantity) Key() string { return strings.ReplaceAll(q.Info().Name, " ", "_") }
+
+// MarshalText writes q as its Key.
 func (q Quantity) MarshalText() ([]byte, error) {
 	if q.Info().Field == "" {
 		return nil, fmt.Errorf("fem: quantity %d is not in the table", int(q))
 	}
-	return []byte(q.Info().Field), nil
+	return []byte(q.Key()), nil
 }
 
-// ParseQuantity finds the quantity whose Field, Name or Column is s.
+// ParseQuantity finds the quantity whose Field, Name, Key or Column is s.
 func ParseQuantity(s string) (Quantity, bool) {
 	for i, info := range quantityInfo {
-		if s == info.Field || s == info.Name || s == info.Column {
+		if s == info.Field || s == info.Name || s == Quantity(i).Key() || s == info.Column {
 			return Quantity(i), true
 		}
 	}

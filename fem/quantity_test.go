@@ -2,11 +2,12 @@ package fem
 
 import (
 	"encoding/json"
+	"strings"
 	"testing"
 )
 
 // TestQuantityTable checks that every quantity has a complete entry, that
-// JSON writes it by its Fields name and that each of its names parses back.
+// JSON writes it by its snake_case Key and that each of its names parses back.
 func TestQuantityTable(t *testing.T) {
 	for _, q := range Quantities() {
 		info := q.Info()
@@ -18,10 +19,10 @@ func TestQuantityTable(t *testing.T) {
 			t.Fatalf("%s: %v", q, err)
 		}
 		var back struct{ Quantity string }
-		if err := json.Unmarshal(got, &back); err != nil || back.Quantity != info.Field {
-			t.Errorf("%s is written as %q in %s, want %q", q, back.Quantity, got, info.Field)
+		if err := json.Unmarshal(got, &back); err != nil || back.Quantity != q.Key() || strings.ContainsAny(back.Quantity, " ABCDEFGHIJKLMNOPQRSTUVWXYZ") {
+			t.Errorf("%s is written as %q in %s, want %q in snake_case", q, back.Quantity, got, q.Key())
 		}
-		for _, name := range []string{info.Field, info.Name, info.Column} {
+		for _, name := range []string{info.Field, info.Name, q.Key(), info.Column} {
 			if p, ok := ParseQuantity(name); !ok || p != q {
 				t.Errorf("ParseQuantity(%q) = %v, %v; want %v", name, p, ok, q)
 			}

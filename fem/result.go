@@ -61,7 +61,9 @@ type Reaction struct {
 
 // Equilibrium compares applied loads with reactions, those of the supports
 // and of the foundations: Fx, Fy and the moment about x = 0. Residual =
-// Applied + Reactions, which must vanish.
+// Applied + Reactions, which must vanish. Ground is the part of Reactions
+// the foundations carry (zero without foundations).
 type Equilibrium struct {
 	Applied, Reactions, Residual [3]float64
+	Ground                       [3]float64
 }

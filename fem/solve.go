@@ -304,7 +304,7 @@ func sectionTable(m *Model, l *Loads) []sectionData {
 // forces along x and y, moment about x = 0) with that of the reactions of
 // the supports and of the foundations (ground, in the same terms).
 func equilibrium(applied [3]float64, reactions []Reaction, ground [3]float64) Equilibrium {
-	q := Equilibrium{Applied: applied, Reactions: ground}
+	q := Equilibrium{Applied: applied, Reactions: ground, Ground: ground}
 	for _, r := range reactions {
 		q.Reactions[0] += r.Force[0]
 		q.Reactions[1] += r.Force[1]

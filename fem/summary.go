@@ -45,7 +45,8 @@ type MeshSummary struct {
 // EquilibriumSummary is Equilibrium with named components for reports.
 type EquilibriumSummary struct {
 	Applied   Components
-	Reactions Components
+	Reactions Components // of the supports and the ground
+	Ground    Components // the part of Reactions the foundations carry
 	Residual  Components
 	// Relative is the largest residual component divided by the largest applied
 	// or reaction component of the same kind; it should be near round-off.
@@ -73,6 +74,18 @@ type ReactionSummary struct {
 	FE Components
 }
 
+// FoundationSummary is what one foundation carries, for reports: the
+// resultant of the ground's forces on the member, the headline one and the
+// finite element one.
+type FoundationSummary struct {
+	Foundation int     // 1-based, as users count
+	Start, End float64 // m
+	// Holds says which resultants the foundation can carry: [0] along the
+	// member (it has an axial modulus), [1] across it (a modulus).
+	Holds        [2]bool
+	Reaction, FE FoundationReaction
+}
+
 // SupportActions are the shear force and the bending moment just left ([0])
 // and just right ([1]) of a support inside the member, where they jump or
 // peak: the headline values and the finite element ones.
@@ -90,7 +103,10 @@ type Summary struct {
 	// there is none, and then they are the finite element ones.
 	Exact     bool
 	Reactions []ReactionSummary
-	Extremes  []Extreme
+	// Foundations are what each foundation carries, in the model's order;
+	// nil without foundations.
+	Foundations []FoundationSummary
+	Extremes    []Extreme
 	// Supports are the actions at every support inside the member, in order along it.
 	Supports []SupportActions
 	// Equilibrium is the balance of the headline reactions with the loads,
@@ -377,6 +393,7 @@ func (z *Summarizer) Summary() Summary {
 		}
 		sum.Reactions = append(sum.Reactions, rs)
 	}
+	sum.Foundations = foundationSummaries(s, ex)
 	sum.Extremes = z.extremes.list()
 	L := s.Model.Length()
 	if ex != nil {
@@ -434,10 +451,33 @@ func supportActions(s *Solution, e *Exact) []SupportActions {
 	return out
 }
 
+// foundationSummaries are what the foundations of s carry: from e when
+// not nil, with the finite element resultants of s beside.
+func foundationSummaries(s *Solution, e *Exact) []FoundationSummary {
+	if len(s.Foundations) == 0 {
+		return nil
+	}
+	var exact []FoundationReaction
+	if e != nil {
+		exact = e.Foundations()
+	}
+	out := make([]FoundationSummary, len(s.Foundations))
+	for i, r := range s.Foundations {
+		f := s.Model.Foundations[r.Foundation]
+		out[i] = FoundationSummary{Foundation: r.Foundation + 1, Start: r.Start, End: r.End,
+			Holds: [2]bool{f.AxialModulus > 0, f.Modulus > 0}, Reaction: r, FE: r}
+		if i < len(exact) {
+			out[i].Reaction = exact[i]
+		}
+	}
+	return out
+}
+
 func equilibriumSummary(eq Equilibrium) EquilibriumSummary {
 	return EquilibriumSummary{
 		Applied:   components(eq.Applied),
 		Reactions: components(eq.Reactions),
+		Ground:    components(eq.Ground),
 		Residual:  components(eq.Residual),
 		Relative:  relativeResidual(eq),
 	}

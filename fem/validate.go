@@ -414,7 +414,7 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 			at := Place{Item: it, Property: MotionStiffnessProperty, Dof: Dof(d)}
 			switch {
 			case k != 0 && s.Kind.Restrains(Dof(d)):
-				v.add(at, fmt.Sprintf("support %d is %s, which holds the %s motion rigidly, so a stiffness for that motion has no effect: remove it, or choose a kind that leaves the motion free (such as %s) to hold it by a spring", i+1, s.Kind, Dof(d), freeKindFor(Dof(d))))
+				v.add(at, fmt.Sprintf("support %d is a %s support, which holds the %s motion rigidly, so a stiffness for that motion has no effect: remove it, or choose a kind that leaves the motion free (such as %s) to hold it by a spring", i+1, s.Kind, Dof(d), freeKindFor(Dof(d))))
 			case !isFinite(k):
 				v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %v: enter a finite value in %s", i+1, Dof(d), k, springUnits[d]))
 			case k < 0:
@@ -462,7 +462,9 @@ func (v *validator) shearDeformation(i int, s Segment) {
 }
 
 // hinges checks the moment releases: inside the member, one per point, not
-// where a support holds the rotation (which side would it hold?), a
+// where a support holds the rotation (which side would it hold?), not as a
+// pure hinge at a support that lets the member turn (that support already
+// frees the joint; a semi-rigid joint there is kept), a
 // spring stiffness in range, and not on an axial-only member.
 func (v *validator) hinges(m *Model, lengthKnown bool) {
 	for i, h := range m.Hinges {
@@ -481,8 +483,13 @@ func (v *validator) hinges(m *Model, lengthKnown bool) {
 			}
 		}
 		for k, s := range m.Supports {
-			if math.Abs(s.X-h.X) <= v.tol && s.Holds(Rotation) {
+			if math.Abs(s.X-h.X) > v.tol {
+				continue
+			}
+			if s.Holds(Rotation) {
 				v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), which holds the rotation: it cannot say which side the support holds; move the hinge off the support, or choose a support kind that lets the member turn (pinned, roller)", i+1, k+1, fmtMetres(h.X)))
+			} else if h.Stiffness == 0 {
+				v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), a %s support that already lets the member turn there: a pure hinge would cut the member into separate spans; check each span as its own member, move the hinge into the span, or give it a rotational stiffness for a semi-rigid joint over the support", i+1, k+1, fmtMetres(h.X), s.Kind))
 			}
 		}
 		k := h.Stiffness

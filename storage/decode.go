@@ -433,9 +433,11 @@ func (r *reader) project(top *fields) *Project {
 	r.cases(p, top)
 	p.Trains = r.trains(top)
 
-	mesh := top.object("mesh", true, `"mesh": {"elements": ...}`)
+	// Without a mesh, or without its number of elements, Stave chooses the
+	// mesh, as it does for "elements": 0.
+	mesh := top.object("mesh", false, "")
 	p.Model.Mesh = fem.MeshSettings{
-		Elements:         mesh.count("elements", true),
+		Elements:         mesh.count("elements", false),
 		MaxElementLength: mesh.number("max_element_length", "m", false),
 		BarOrder:         fem.ElementOrder(mesh.count("bar_order", false)),
 	}

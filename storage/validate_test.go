@@ -50,7 +50,7 @@ func TestDecodeReportsEachKindOfProblem(t *testing.T) {
 		{name: "required value missing", old: `"second_moment": 8.54296875e-5,`, new: ``, path: "member.segments[1].section.second_moment", phrase: "missing"},
 		{name: "number too large", old: `"elastic_modulus": 1.15e10,`, new: `"elastic_modulus": 1e999,`, path: "member.segments[0].material.elastic_modulus", phrase: "too large"},
 		{name: "unknown support kind", old: `"kind": "pinned"`, new: `"kind": "hinge"`, path: "supports[0].kind", phrase: `"hinge" is not a support kind`},
-		{name: "stiffness on a rigid support", old: `"kind": "pinned"`, new: `"kind": "pinned", "stiffness": {"axial": 1}`, path: "supports[0].stiffness.axial", phrase: "support 1 is pinned, which holds the axial motion rigidly, so a stiffness for that motion has no effect"},
+		{name: "stiffness on a rigid support", old: `"kind": "pinned"`, new: `"kind": "pinned", "stiffness": {"axial": 1}`, path: "supports[0].stiffness.axial", phrase: "support 1 is a pinned support, which holds the axial motion rigidly, so a stiffness for that motion has no effect"},
 		{name: "roller with a rotational spring", old: `"kind": "roller"`, new: `"kind": "roller", "stiffness": {"rotation": -5}`, path: "supports[1].stiffness.rotation", phrase: "must not be negative"},
 		{name: "spring without stiffness", old: `"kind": "pinned"`, new: `"kind": "spring"`, path: "supports[0].stiffness", phrase: "missing"},
 		{name: "settlement of a free motion", old: `"kind": "pinned"`, new: `"kind": "pinned", "settlement": {"rotation": 0.01}`, path: "supports[0].settlement.rotation", phrase: "leaves the rotation motion free"},

@@ -4,6 +4,7 @@ import (
 	"os"
 	"path/filepath"
 	"reflect"
+	"regexp"
 	"testing"
 
 	"stave/fem"
@@ -70,5 +71,40 @@ func TestVersion2Additions(t *testing.T) {
 	}
 	if !reflect.DeepEqual(back.Model.Foundations, p.Model.Foundations) {
 		t.Errorf("foundations read back as %+v, want %+v", back.Model.Foundations, p.Model.Foundations)
+	}
+}
+
+// A file that leaves the mesh out, or its number of elements, lets Stave
+// choose the mesh, as "elements": 0 does.
+func TestMeshLeftOutIsAutomatic(t *testing.T) {
+	data, err := os.ReadFile(filepath.Join("..", "testdata", "simply_supported_uniform.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	p, err := Unmarshal(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	p.Model.Mesh = fem.MeshSettings{}
+	full, err := Marshal(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for name, cut := range map[string]*regexp.Regexp{
+		"no mesh":     regexp.MustCompile(`"mesh": \{\s*"elements": 0\s*\},`),
+		"no elements": regexp.MustCompile(`"elements": 0`),
+	} {
+		text := cut.ReplaceAllString(string(full), "")
+		if text == string(full) {
+			t.Fatalf("%s: the saved file has nothing to leave out:\n%s", name, full)
+		}
+		q, err := Unmarshal([]byte(text))
+		if err != nil {
+			t.Errorf("%s: %v\n%s", name, err, text)
+			continue
+		}
+		if q.Model.Mesh != (fem.MeshSettings{}) {
+			t.Errorf("%s: mesh %+v, want the automatic one", name, q.Model.Mesh)
+		}
 	}
 }

@@ -63,6 +63,9 @@ type EnvelopeJSON struct {
 	Spans      [][2]float64         `json:"spans"` // m, in order; loaded spans count from 1
 	Quantities []QuantityEnvelope   `json:"quantities"`
 	Reactions  []ReactionEnvelopeJS `json:"reactions"`
+	// Foundations are what each foundation carries, at its largest and
+	// smallest; empty without foundations.
+	Foundations []FoundationEnvelopeJS `json:"foundations"`
 }
 
 // QuantityEnvelope is one quantity's largest and smallest value.
@@ -98,6 +101,16 @@ type ReactionEnvelopeJS struct {
 	X       float64                  `json:"x"`
 	Max     map[string]GoverningJSON `json:"max"` // "axial", "transverse", "moment"
 	Min     map[string]GoverningJSON `json:"min"`
+}
+
+// FoundationEnvelopeJS is one foundation's envelope: the resultant of the
+// ground's forces along ("axial") and across ("transverse") the member.
+type FoundationEnvelopeJS struct {
+	Foundation int                      `json:"foundation"` // 1-based
+	Start      float64                  `json:"start"`      // m
+	End        float64                  `json:"end"`        // m
+	Max        map[string]GoverningJSON `json:"max"`
+	Min        map[string]GoverningJSON `json:"min"`
 }
 
 var componentNames = [3]string{"axial", "transverse", "moment"}
@@ -138,7 +151,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 	env := c.Envelope
 	out.Envelope = EnvelopeJSON{Caution: CombinedCaution, Spans: c.Solutions.Loads.Spans}
 	for _, q := range env.Quantities {
-		out.Envelope.Quantities = append(out.Envelope.Quantities, QuantityEnvelope{Quantity: q.Quantity, Name: jsonName(q.Quantity), Unit: q.Quantity.Info().SI,
+		out.Envelope.Quantities = append(out.Envelope.Quantities, QuantityEnvelope{Quantity: q.Quantity, Name: q.Quantity.Key(), Unit: q.Quantity.Info().SI,
 			Max: governingJSON(m, c, q.Max), Min: governingJSON(m, c, q.Min)})
 	}
 	for _, r := range env.Reactions {
@@ -148,6 +161,15 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 			rj.Max[name], rj.Min[name] = governingJSON(m, c, r.Max[d]), governingJSON(m, c, r.Min[d])
 		}
 		out.Envelope.Reactions = append(out.Envelope.Reactions, rj)
+	}
+	out.Envelope.Foundations = []FoundationEnvelopeJS{}
+	for _, f := range env.Foundations {
+		fj := FoundationEnvelopeJS{Foundation: f.Foundation + 1, Start: f.Start, End: f.End,
+			Max: map[string]GoverningJSON{}, Min: map[string]GoverningJSON{}}
+		for d, name := range componentNames[:2] {
+			fj.Max[name], fj.Min[name] = governingJSON(m, c, f.Max[d]), governingJSON(m, c, f.Min[d])
+		}
+		out.Envelope.Foundations = append(out.Envelope.Foundations, fj)
 	}
 	return out, nil
 }
@@ -263,6 +285,21 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 		}
 	}
 	tw.Flush()
+	if len(r.Envelope.Foundations) > 0 {
+		fmt.Fprintln(tw, "\nGround envelope (resultant of each foundation's forces on the member)")
+		fmt.Fprintln(tw, "  foundation\tfrom\tto\tcomponent\tlargest\tgoverning\tsmallest\tgoverning")
+		for _, f := range r.Envelope.Foundations {
+			for _, name := range componentNames[:2] {
+				hi, lo := f.Max[name], f.Min[name]
+				if hi.Value == 0 && lo.Value == 0 {
+					continue
+				}
+				fmt.Fprintf(tw, "  %d\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", f.Foundation, pos(f.Start), pos(f.End), name,
+					u.Format(units.Force, hi.Value), governingWords(hi), u.Format(units.Force, lo.Value), governingWords(lo))
+			}
+		}
+		tw.Flush()
+	}
 	fmt.Fprintln(w, "\nCaution:", fem.Caution)
 	fmt.Fprintln(w, CombinedCaution)
 }
@@ -312,7 +349,7 @@ func sheetCaseLines(src Source) []string {
 		return []string{"the cases could not be reported: " + err.Error()}
 	}
 	u := src.Units
-	var names, combos, reactions []string
+	var names, combos []string
 	for _, c := range r.Cases {
 		n := c.Name
 		if c.BySpan {
@@ -338,15 +375,31 @@ func sheetCaseLines(src Source) []string {
 				u.Format(k, q.Min.Value), u.Format(units.Position, q.Min.X), governingWords(q.Min)))
 		}
 	}
+	// transverse is the range of one transverse envelope, numbered n;
+	// "" where it is zero throughout.
+	transverse := func(n int, max, min map[string]GoverningJSON) string {
+		hi, lo := max["transverse"], min["transverse"]
+		if hi.Value == 0 && lo.Value == 0 {
+			return ""
+		}
+		return fmt.Sprintf("%d: %s (%s) to %s (%s)", n, u.Format(units.Force, lo.Value), governingWords(lo), u.Format(units.Force, hi.Value), governingWords(hi))
+	}
+	var reactions, ground []string
 	for _, re := range r.Envelope.Reactions {
-		hi, lo := re.Max["transverse"], re.Min["transverse"]
-		if hi.Value != 0 || lo.Value != 0 {
-			reactions = append(reactions, fmt.Sprintf("%d: %s (%s) to %s (%s)", re.Support,
-				u.Format(units.Force, lo.Value), governingWords(lo), u.Format(units.Force, hi.Value), governingWords(hi)))
+		if t := transverse(re.Support, re.Max, re.Min); t != "" {
+			reactions = append(reactions, t)
+		}
+	}
+	for _, f := range r.Envelope.Foundations {
+		if t := transverse(f.Foundation, f.Max, f.Min); t != "" {
+			ground = append(ground, t)
 		}
 	}
 	if len(reactions) > 0 {
 		lines = append(lines, "Transverse reactions, support "+strings.Join(reactions, "; ")+".")
+	}
+	if len(ground) > 0 {
+		lines = append(lines, "Ground's resultant across the member, foundation "+strings.Join(ground, "; ")+".")
 	}
 	return lines
 }

@@ -148,9 +148,18 @@ func WriteInfluenceText(w io.Writer, path string, r *MovingLoads, u units.System
 	tw.Flush()
 	fmt.Fprintf(w, "  largest %s with the load at %s; smallest %s with the load at %s\n",
 		value(r.Largest.Value), pos(r.Largest.S), value(r.Smallest.Value), pos(r.Smallest.S))
-	kind := targetKind(t)
-	for _, tr := range r.Trains {
-		fmt.Fprintf(w, "\n%s\n", describeTrain(&tr.Train, tr.Label, r.Member.Model().Length(), u))
+	writeTrainsText(w, r.Trains, r.Member.Model(), &t, u)
+	fmt.Fprintln(w, "\nCaution:", fem.Caution)
+}
+
+// writeTrainsText writes what each train does on model m: how it runs,
+// its extremes of target when one is given, and over all its positions
+// the extremes of every field and reaction with the positions that govern.
+func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *moving.Target, u units.System) {
+	pos := func(x float64) string { return u.Format(units.Position, x) }
+	tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', 0)
+	for _, tr := range trains {
+		fmt.Fprintf(w, "\n%s\n", describeTrain(&tr.Train, tr.Label, m.Length(), u))
 		if tr.Err != nil {
 			fmt.Fprintf(w, "  not placed: %v\n", tr.Err)
 			continue
@@ -158,8 +167,9 @@ func WriteInfluenceText(w io.Writer, path string, r *MovingLoads, u units.System
 		if tr.Envelope != nil {
 			fmt.Fprintf(w, "  %d positions each way it moves, %s apart\n", tr.Envelope.Positions, pos(tr.Envelope.Step))
 		}
-		if tr.Target {
-			fmt.Fprintf(w, "  %s: largest %s, smallest %s\n", describeTarget(t, u),
+		if tr.Target && target != nil {
+			kind := targetKind(*target)
+			fmt.Fprintf(w, "  %s: largest %s, smallest %s\n", describeTarget(*target, u),
 				trainExtremeText(tr.Largest, kind, u, false), trainExtremeText(tr.Smallest, kind, u, false))
 		}
 		if tr.Envelope == nil {
@@ -176,14 +186,13 @@ func WriteInfluenceText(w io.Writer, path string, r *MovingLoads, u units.System
 			if re.Motion == fem.Rotation {
 				k = units.Moment
 			}
-			hi := TrainExtreme{Value: re.Max, X: r.Member.Model().Supports[re.Support].X, Direction: re.MaxAt.Direction.String(), Front: re.MaxAt.Front}
+			hi := TrainExtreme{Value: re.Max, X: m.Supports[re.Support].X, Direction: re.MaxAt.Direction.String(), Front: re.MaxAt.Front}
 			lo := TrainExtreme{Value: re.Min, X: hi.X, Direction: re.MinAt.Direction.String(), Front: re.MinAt.Front}
 			fmt.Fprintf(tw, "    %s reaction of support %d\tlargest\t%s\n", re.Motion, re.Support+1, trainExtremeText(hi, k, u, false))
 			fmt.Fprintf(tw, "    \tsmallest\t%s\n", trainExtremeText(lo, k, u, false))
 		}
 		tw.Flush()
 	}
-	fmt.Fprintln(w, "\nCaution:", fem.Caution)
 }
 
 // trainExtremeText writes an extreme with the train's position, and where

@@ -52,17 +52,21 @@ type resultsDocument struct {
 	// The cases, combinations and envelope of a model with load cases
 	// (cases.go); Results are then of the case or combination shown.
 	*CasesJSON
+	// Trains are the file's moving load trains, each alone on the member:
+	// worst positions and envelope (trains.go).
+	Trains []TrainJSON `json:"trains,omitempty"`
 }
 
 // Results are one set of results: reactions, extremes, the actions at the
 // supports inside the member, equilibrium and the error of the finite
 // element answer, each headline value beside its finite element one.
 type Results struct {
-	Reactions      []reactionJSON  `json:"reactions"`
-	Extremes       []extremeJSON   `json:"extremes"`
-	SupportActions []supportJSON   `json:"support_actions"`
-	Equilibrium    equilibriumJSON `json:"equilibrium"`
-	ExactError     *exactErrorJSON `json:"exact_error"`
+	Reactions      []reactionJSON   `json:"reactions"`
+	Foundations    []foundationJSON `json:"foundations"`
+	Extremes       []extremeJSON    `json:"extremes"`
+	SupportActions []supportJSON    `json:"support_actions"`
+	Equilibrium    equilibriumJSON  `json:"equilibrium"`
+	ExactError     *exactErrorJSON  `json:"exact_error"`
 }
 
 type meshJSON struct {
@@ -98,6 +102,20 @@ type reactionJSON struct {
 	Axial      *comparedJSON `json:"axial"`
 	Transverse *comparedJSON `json:"transverse"`
 	Moment     *comparedJSON `json:"moment"`
+}
+
+// foundationJSON is what one foundation carries: the resultant of the
+// ground's forces on the member along it, across it, its moment about
+// x = 0 and where it acts.
+type foundationJSON struct {
+	Foundation int           `json:"foundation"`
+	Start      float64       `json:"start"`
+	End        float64       `json:"end"`
+	XUnit      string        `json:"x_unit"`
+	Axial      *comparedJSON `json:"axial"`
+	Transverse *comparedJSON `json:"transverse"`
+	Moment     *comparedJSON `json:"moment"`
+	Centre     *comparedJSON `json:"centre"`
 }
 
 type extremeJSON struct {
@@ -145,8 +163,11 @@ type componentsJSON struct {
 
 type balanceJSON struct {
 	Reactions componentsJSON `json:"reactions"`
-	Residual  componentsJSON `json:"residual"`
-	Relative  float64        `json:"relative"`
+	// Ground is the part of Reactions the foundations carry; nil without
+	// foundations.
+	Ground   *componentsJSON `json:"ground"`
+	Residual componentsJSON  `json:"residual"`
+	Relative float64         `json:"relative"`
 }
 
 type equilibriumJSON struct {
@@ -204,9 +225,6 @@ func headlineName(exact bool) string {
 	return "finite_element"
 }
 
-// jsonName is a quantity's name as a snake_case JSON value.
-func jsonName(q fem.Quantity) string { return strings.ReplaceAll(q.Info().Name, " ", "_") }
-
 // compared is a headline value v beside the finite element value fe.
 func compared(exact bool, v, fe float64, unit string) comparedJSON {
 	c := comparedJSON{Value: v, FE: fe, Unit: unit}
@@ -221,13 +239,43 @@ func componentsOf(c fem.Components) componentsJSON {
 	return componentsJSON{c.Axial, c.Transverse, c.Moment, "N", "N·m"}
 }
 
-func balanceOf(e fem.EquilibriumSummary) balanceJSON {
-	return balanceJSON{componentsOf(e.Reactions), componentsOf(e.Residual), e.Relative}
+// balanceOf is e as JSON, with the ground's part when there is ground.
+func balanceOf(e fem.EquilibriumSummary, ground bool) balanceJSON {
+	b := balanceJSON{Reactions: componentsOf(e.Reactions), Residual: componentsOf(e.Residual), Relative: e.Relative}
+	if ground {
+		g := componentsOf(e.Ground)
+		b.Ground = &g
+	}
+	return b
+}
+
+// foundationsOf is what each foundation of s carries: the components it
+// can carry, the moment about x = 0 and the line of action of the
+// resultant across the member.
+func foundationsOf(s fem.Summary) []foundationJSON {
+	out := []foundationJSON{}
+	for _, f := range s.Foundations {
+		j := foundationJSON{Foundation: f.Foundation, Start: f.Start, End: f.End, XUnit: "m"}
+		c := func(v, fe float64, unit string) *comparedJSON {
+			c := compared(s.Exact, v, fe, unit)
+			return &c
+		}
+		if f.Holds[fem.Axial] {
+			j.Axial = c(f.Reaction.Force[0], f.FE.Force[0], "N")
+		}
+		if f.Holds[fem.Transverse] {
+			j.Transverse = c(f.Reaction.Force[1], f.FE.Force[1], "N")
+			j.Moment = c(f.Reaction.Moment, f.FE.Moment, "N·m")
+			j.Centre = c(f.Reaction.Centre(), f.FE.Centre(), "m")
+		}
+		out = append(out, j)
+	}
+	return out
 }
 
 // resultsOf is the summary s as one set of results.
 func resultsOf(s fem.Summary) *Results {
-	r := &Results{Reactions: []reactionJSON{}, Extremes: []extremeJSON{}, SupportActions: []supportJSON{}}
+	r := &Results{Reactions: []reactionJSON{}, Foundations: foundationsOf(s), Extremes: []extremeJSON{}, SupportActions: []supportJSON{}}
 	for _, x := range s.Reactions {
 		j := reactionJSON{Support: x.Support, Kind: x.Kind, X: x.X, XUnit: "m"}
 		held := func(d fem.Dof, v, fe float64, unit string) *comparedJSON {
@@ -247,7 +295,7 @@ func resultsOf(s fem.Summary) *Results {
 			c := compared(s.Exact, v, fe, e.Unit)
 			return placeJSON{Value: v, X: x, Exact: c.Exact, FE: fe, XFE: xfe, Difference: c.Difference, Unit: e.Unit, XUnit: "m"}
 		}
-		j := extremeJSON{Quantity: jsonName(e.Quantity), Name: e.Quantity.Info().Name,
+		j := extremeJSON{Quantity: e.Quantity.Key(), Name: e.Quantity.Info().Name,
 			Max: place(e.Max, e.XMax, e.FEMax, e.FEXMax), Min: place(e.Min, e.XMin, e.FEMin, e.FEXMin)}
 		if s.Exact {
 			a := e.Accuracy
@@ -262,9 +310,10 @@ func resultsOf(s fem.Summary) *Results {
 			MomentLeft:  compared(s.Exact, a.Moment[0], a.FEMoment[0], "N·m"),
 			MomentRight: compared(s.Exact, a.Moment[1], a.FEMoment[1], "N·m")})
 	}
-	r.Equilibrium = equilibriumJSON{Applied: componentsOf(s.FEEquilibrium.Applied), FE: balanceOf(s.FEEquilibrium)}
+	ground := len(s.Foundations) > 0
+	r.Equilibrium = equilibriumJSON{Applied: componentsOf(s.FEEquilibrium.Applied), FE: balanceOf(s.FEEquilibrium, ground)}
 	if s.Exact {
-		b := balanceOf(s.Equilibrium)
+		b := balanceOf(s.Equilibrium, ground)
 		r.Equilibrium.Exact = &b
 	}
 	if e := s.ExactError; e != nil {
@@ -350,6 +399,9 @@ func WriteSolveJSON(w io.Writer, path string, src Source) error {
 			return err
 		}
 		doc.CasesJSON = cases
+		if src.Project != nil {
+			doc.Trains = TrainsJSON(&src.Project.Model, solveTrains(src.Project), true)
+		}
 	}
 	return WriteJSON(w, doc)
 }
@@ -364,6 +416,10 @@ func WriteSolveJSON(w io.Writer, path string, src Source) error {
 func WriteSolveText(w io.Writer, path string, src Source) {
 	fmt.Fprintf(w, "Stave %s: %s\n", Version, path)
 	WriteResultsText(w, src)
+	if trains := solveTrains(src.Project); trains != nil {
+		fmt.Fprintln(w, "\nMoving load trains, each alone on the member (its own loads and cases not added; stave influence draws them)")
+		writeTrainsText(w, trains, &src.Project.Model, nil, src.Units)
+	}
 	fmt.Fprintln(w, "\nCaution:", fem.Caution)
 }
 
@@ -417,6 +473,32 @@ func WriteResultsText(w io.Writer, src Source) {
 		}
 	}
 	tw.Flush()
+
+	if len(sum.Foundations) > 0 {
+		fmt.Fprintln(tw, "\nFoundations (resultant of the ground's forces on the member, with its moment about x = 0 and where it acts)")
+		fmt.Fprintln(tw, columns("  foundation\tfrom\tto\tcomponent"))
+		for _, f := range sum.Foundations {
+			lead := fmt.Sprintf("  %d\t%s\t%s", f.Foundation, pos(f.Start), pos(f.End))
+			for _, c := range []struct {
+				name    string
+				kind    units.Kind
+				v, fe   float64
+				holding bool
+			}{
+				{"axial", units.Force, f.Reaction.Force[0], f.FE.Force[0], f.Holds[fem.Axial]},
+				{"transverse", units.Force, f.Reaction.Force[1], f.FE.Force[1], f.Holds[fem.Transverse]},
+				{"moment about x = 0", units.Moment, f.Reaction.Moment, f.FE.Moment, f.Holds[fem.Transverse]},
+				{"acts at x", units.Position, f.Reaction.Centre(), f.FE.Centre(), f.Holds[fem.Transverse]},
+			} {
+				if !c.holding {
+					continue
+				}
+				fmt.Fprintf(tw, "%s\t%s\t%s\n", lead, c.name, values(c.kind, c.v, c.fe))
+				lead = "  \t\t"
+			}
+		}
+		tw.Flush()
+	}
 
 	fmt.Fprintln(tw, "\nExtremes along the member")
 	if feBeside {
@@ -486,27 +568,53 @@ func WriteMeshText(w io.Writer, sum fem.Summary) {
 }
 
 // writeEquilibriumText writes the balance of loads and reactions, of the
-// exact and of the finite element reactions.
+// exact and of the finite element reactions; with foundations, the
+// ground's part of the reactions beside them.
 func writeEquilibriumText(w io.Writer, tw *tabwriter.Writer, sum fem.Summary, u units.System) {
-	force := func(v float64) string { return u.Format(units.Force, v) }
-	moment := func(v float64) string { return u.Format(units.Moment, v) }
-	eq, fe := sum.Equilibrium, sum.FEEquilibrium
-	fmt.Fprintln(tw, "\nEquilibrium (applied loads + reactions must be zero)")
+	ground := len(sum.Foundations) > 0
+	balances := []fem.EquilibriumSummary{sum.FEEquilibrium}
+	head := "FE reactions"
 	if sum.Exact {
-		fmt.Fprintln(tw, "  \tapplied\texact reactions\tresidual\tFE reactions\tresidual")
-		fmt.Fprintf(tw, "  axial force\t%s\t%s\t%s\t%s\t%s\n", force(eq.Applied.Axial), force(eq.Reactions.Axial), force(eq.Residual.Axial), force(fe.Reactions.Axial), force(fe.Residual.Axial))
-		fmt.Fprintf(tw, "  transverse force\t%s\t%s\t%s\t%s\t%s\n", force(eq.Applied.Transverse), force(eq.Reactions.Transverse), force(eq.Residual.Transverse), force(fe.Reactions.Transverse), force(fe.Residual.Transverse))
-		fmt.Fprintf(tw, "  moment about x = 0\t%s\t%s\t%s\t%s\t%s\n", moment(eq.Applied.Moment), moment(eq.Reactions.Moment), moment(eq.Residual.Moment), moment(fe.Reactions.Moment), moment(fe.Residual.Moment))
-		tw.Flush()
-		fmt.Fprintf(w, "  largest residual relative to the loads: exact %.1e, FE %.1e\n", eq.Relative, fe.Relative)
+		balances = []fem.EquilibriumSummary{sum.Equilibrium, sum.FEEquilibrium}
+		head = "exact reactions\t" + head
+	}
+	title, cols := "applied loads + reactions", "  \tapplied"
+	for _, h := range strings.Split(head, "\t") {
+		if ground {
+			h += "\tof which ground"
+		}
+		cols += "\t" + h + "\tresidual"
+	}
+	if ground {
+		title += " of the supports and the ground"
+	}
+	fmt.Fprintf(tw, "\nEquilibrium (%s must be zero)\n", title)
+	fmt.Fprintln(tw, cols)
+	for _, c := range []struct {
+		name string
+		kind units.Kind
+		get  func(fem.Components) float64
+	}{
+		{"axial force", units.Force, func(c fem.Components) float64 { return c.Axial }},
+		{"transverse force", units.Force, func(c fem.Components) float64 { return c.Transverse }},
+		{"moment about x = 0", units.Moment, func(c fem.Components) float64 { return c.Moment }},
+	} {
+		line := "  " + c.name + "\t" + u.Format(c.kind, c.get(balances[0].Applied))
+		for _, b := range balances {
+			line += "\t" + u.Format(c.kind, c.get(b.Reactions))
+			if ground {
+				line += "\t" + u.Format(c.kind, c.get(b.Ground))
+			}
+			line += "\t" + u.Format(c.kind, c.get(b.Residual))
+		}
+		fmt.Fprintln(tw, line)
+	}
+	tw.Flush()
+	if sum.Exact {
+		fmt.Fprintf(w, "  largest residual relative to the loads: exact %.1e, FE %.1e\n", sum.Equilibrium.Relative, sum.FEEquilibrium.Relative)
 		return
 	}
-	fmt.Fprintln(tw, "  \tapplied\tFE reactions\tresidual")
-	fmt.Fprintf(tw, "  axial force\t%s\t%s\t%s\n", force(fe.Applied.Axial), force(fe.Reactions.Axial), force(fe.Residual.Axial))
-	fmt.Fprintf(tw, "  transverse force\t%s\t%s\t%s\n", force(fe.Applied.Transverse), force(fe.Reactions.Transverse), force(fe.Residual.Transverse))
-	fmt.Fprintf(tw, "  moment about x = 0\t%s\t%s\t%s\n", moment(fe.Applied.Moment), moment(fe.Reactions.Moment), moment(fe.Residual.Moment))
-	tw.Flush()
-	fmt.Fprintf(w, "  largest residual relative to the loads: %.1e\n", fe.Relative)
+	fmt.Fprintf(w, "  largest residual relative to the loads: %.1e\n", sum.FEEquilibrium.Relative)
 }
 
 // WriteErrorText writes the three error measures of the finite element

@@ -122,7 +122,10 @@ func feReading(m *fem.Model, t *moving.Train, q fem.Quantity, ex moving.Extreme)
 	for _, p := range points {
 		if math.Abs(p.X-ex.X) <= 1e-9*L {
 			for _, d := range []float64{-nudge * L, nudge * L} {
-				places = append(places, moving.Placement{Direction: ex.Placement.Direction, Front: ex.Placement.Front + d})
+				// A train at an end of its run moves by a hair one way only.
+				if pl := (moving.Placement{Direction: ex.Placement.Direction, Front: ex.Placement.Front + d}); onRun(t, pl, L) {
+					places = append(places, pl)
+				}
 			}
 			break
 		}
@@ -144,6 +147,26 @@ func feReading(m *fem.Model, t *moving.Train, q fem.Quantity, ex moving.Extreme)
 	return best, nil
 }
 
+// onRun reports whether every load of t at p stands on its run on a
+// member of length L.
+func onRun(t *moving.Train, p moving.Placement, L float64) bool {
+	from, to := t.Run(L)
+	points, lines := t.Loads(p)
+	for _, a := range points {
+		if a.X < from || a.X > to {
+			return false
+		}
+	}
+	for _, d := range lines {
+		for _, v := range d.Points {
+			if v.X < from || v.X > to {
+				return false
+			}
+		}
+	}
+	return true
+}
+
 // TrainEnvelopes are the envelopes of every train of p, each extreme
 // checked by finite elements at its governing position: what the solve
 // command can add to its JSON as "trains" (TrainsJSON).
@@ -153,6 +176,24 @@ func TrainEnvelopes(p *storage.Project) ([]TrainResult, error) {
 		return nil, err
 	}
 	return trainResults(p, in, member.Mesh(), nil, true)
+}
+
+// solveTrains are the envelopes of p's trains for the solve command, each
+// train alone on the member without its own loads; when the member's
+// influence lines cannot be set up, every train carries why.
+func solveTrains(p *storage.Project) []TrainResult {
+	if p == nil || len(p.Trains) == 0 {
+		return nil
+	}
+	rs, err := TrainEnvelopes(p)
+	if err == nil {
+		return rs
+	}
+	rs = make([]TrainResult, len(p.Trains))
+	for i, t := range p.Trains {
+		rs[i] = TrainResult{Train: t, Label: t.Label(i), Err: err}
+	}
+	return rs
 }
 
 // influenceOf prepares the member of p and sets up its influence lines.

@@ -112,6 +112,65 @@ func TestInfluenceCommandTrains(t *testing.T) {
 	}
 }
 
+// Two equal axles P a apart crossing a simply supported span L: the
+// largest moment anywhere is (2P/L)·(L/2 − a/4)², under an axle when the
+// span's middle lies halfway between that axle and the resultant (the
+// rule for two moving loads; e.g. Hibbeler, Structural Analysis, ch. 6,
+// from memory): 15.3125 kN·m for P = 10 kN, a = 1 m, L = 4 m. The worst
+// smallest moment stands with an axle on an end support, where the train
+// can be moved by a hair one way only to read the finite element value.
+func TestInfluenceCommandTwoAxlesAbsoluteMaximum(t *testing.T) {
+	const P, a, L = 10e3, 1.0, 4.0
+	path := variant(t, t.TempDir(), "axles", func(m map[string]any) {
+		delete(m, "loads")
+		m["trains"] = []any{map[string]any{"name": "two axles", "step": 0.01,
+			"axles": []any{map[string]any{"load": P}, map[string]any{"load": P, "spacing": a}}}}
+	})
+	got := influenceRun(t, path, "--quantity", "M", "--at", "2", "--envelope")
+	if len(got.Trains) != 1 || got.Trains[0].Error != "" {
+		t.Fatalf("trains %+v, want the one train without error", got.Trains)
+	}
+	want := 2 * P / L * (L/2 - a/4) * (L/2 - a/4)
+	for _, w := range got.Trains[0].Worst {
+		if w.Smallest.FE == nil || w.Largest.FE == nil {
+			t.Errorf("%s: no finite element reading at a governing position", w.Quantity)
+		}
+		if w.Quantity == "bending_moment" {
+			near(t, "largest moment", w.Largest.Value, want, 1e-9)
+			near(t, "its finite element reading", *w.Largest.FE, want, 1e-6)
+		}
+	}
+}
+
+// stave solve --json carries each train's worst positions and envelope,
+// the same as stave influence --envelope finds for them.
+func TestSolveJSONCarriesTrains(t *testing.T) {
+	const file = "../../testdata/moving/runway.json"
+	code, out, stderr := runStave(t, "solve", "--json", file)
+	if code != 0 || stderr != "" {
+		t.Fatalf("exit %d, stderr %q", code, stderr)
+	}
+	var solved influenceJSON
+	if err := json.Unmarshal([]byte(out), &solved); err != nil {
+		t.Fatal(err)
+	}
+	inf := influenceRun(t, file, "--quantity", "M", "--at", "2", "--envelope")
+	if len(solved.Trains) != len(inf.Trains) || len(solved.Trains) != 2 {
+		t.Fatalf("solve gives %d trains, influence %d; the file has 2", len(solved.Trains), len(inf.Trains))
+	}
+	for i, tr := range solved.Trains {
+		if tr.Envelope == nil || len(tr.Worst) == 0 || len(tr.Worst) != len(inf.Trains[i].Worst) {
+			t.Fatalf("%s: envelope %v, %d extremes; influence gives %d", tr.Train, tr.Envelope != nil, len(tr.Worst), len(inf.Trains[i].Worst))
+		}
+		for j, w := range tr.Worst {
+			v := inf.Trains[i].Worst[j]
+			if w.Quantity != v.Quantity || w.Largest.Value != v.Largest.Value || w.Smallest.Value != v.Smallest.Value {
+				t.Errorf("%s: solve has %s %g..%g, influence %s %g..%g", tr.Train, w.Quantity, w.Smallest.Value, w.Largest.Value, v.Quantity, v.Smallest.Value, v.Largest.Value)
+			}
+		}
+	}
+}
+
 func TestInfluenceCommandMisuse(t *testing.T) {
 	for _, c := range []struct {
 		args []string

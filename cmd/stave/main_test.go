@@ -599,13 +599,14 @@ func TestSolveRestrainedHeatedBar(t *testing.T) {
 // lists even when empty, and every object that holds a dimensioned number
 // states its unit beside it.
 func TestSolveJSONKeys(t *testing.T) {
-	for _, file := range []string{"demo.json", "cantilever_tip_load.json", "fixed_fixed_thermal.json", "two_span_uniform.json"} {
+	for _, file := range []string{"demo.json", "cantilever_tip_load.json", "fixed_fixed_thermal.json", "two_span_uniform.json",
+		"ground_beam_foundation.json", "spliced_beam_hinge.json"} {
 		_, out, _ := runStave(t, "solve", "--json", "../../testdata/"+file)
 		var doc map[string]any
 		if err := json.Unmarshal([]byte(out), &doc); err != nil {
 			t.Fatalf("%s: %v", file, err)
 		}
-		for _, key := range []string{"warnings", "checks", "reactions", "extremes", "support_actions"} {
+		for _, key := range []string{"warnings", "checks", "reactions", "foundations", "extremes", "support_actions"} {
 			if _, ok := doc[key].([]any); !ok {
 				t.Errorf("%s: %q is %T, not a list", file, key, doc[key])
 			}
@@ -617,7 +618,7 @@ func TestSolveJSONKeys(t *testing.T) {
 // dimensionless are the keys whose numbers have no unit: counts, indices,
 // ratios and fractions (docs/json.md).
 var dimensionless = map[string]bool{
-	"version": true, "support": true, "elements": true, "nodes": true, "bar_order": true,
+	"version": true, "support": true, "foundation": true, "elements": true, "nodes": true, "bar_order": true,
 	"condition_estimate": true, "accuracy": true, "accuracy_target": true, "accuracy_reached": true,
 	"relative": true, "stress_error": true, "displacement_error": true, "energy_error": true,
 }

@@ -1,0 +1,31 @@
+package check
+
+import (
+	"testing"
+
+	"stave/fem"
+)
+
+// A ground beam on its bed under a point load in the middle: the ground
+// carries the whole load (statics), and the finite element balance, read
+// from the displacements of a fine mesh, misses by no more than its
+// round-off bound (Condition·ε): the equilibrium checks pass on the default
+// mesh. A balance that misses by more than that bound fails.
+func TestEquilibriumOnAFoundation(t *testing.T) {
+	m := fem.Model{Segments: []fem.Segment{{Start: 0, End: 40, // a concrete strip, 0.4 × 0.5 m nominal
+		Section:  fem.Section{Area: 0.1, SecondMoment: 1e-3, FibreDistance: 0.25},
+		Material: fem.Material{Elastic: 30e9}}}}
+	m.Foundations = []fem.Foundation{{Start: 0, End: 40, Modulus: 5e7}}
+	m.PointLoads = []fem.PointLoad{{X: 20, Transverse: -100e3}}
+	s, e := solveBoth(t, &m)
+	for _, r := range equilibriumChecks(&m, s, e, Options{}) {
+		if r.Status != Pass {
+			t.Errorf("%s: %v on the default mesh (condition %.2g): %s", r.Name, r.Status, s.Condition, r.Message)
+		}
+	}
+	off := *s
+	off.Equilibrium.Reactions[fem.Transverse] *= 1 + 100*max(s.Condition*epsilon, equilibriumTolerance)
+	if r := find(t, equilibriumChecks(&m, &off, e, Options{}), "Equilibrium, transverse"); r.Status != Fail {
+		t.Errorf("a balance off by 100 times its round-off bound: %v, want a failure", r.Status)
+	}
+}
