@@ -46,11 +46,17 @@ func (b *builder) sketch(lay layoutBands) {
 
 	// Foundations and supports first: their boxes keep labels away from
 	// them, and a support's handle lies over the bed it stands in.
+	var beds []label
 	for i, f := range m.Foundations {
-		b.foundation(i, f, y)
+		if l, ok := b.foundation(i, f, y); ok {
+			beds = append(beds, l)
+		}
 	}
 	for i, sp := range m.Supports {
 		b.support(i, sp, y)
+	}
+	for _, l := range beds { // clear of the supports standing in the beds
+		b.place(l)
 	}
 	memberColour := b.colourFor(Ref{Kind: Member}, inkColour)
 	b.line(memberColour, memberWidth, Point{x0, y}, Point{x1, y})
@@ -780,13 +786,15 @@ func (b *builder) hinge(i int, h fem.Hinge, y float32) {
 
 // foundation draws an elastic bed under the stretch it carries: short
 // springs standing on a hatched base line, with a slanted end post at
-// each end, and names its modulus under the base where there is room.
-func (b *builder) foundation(i int, f fem.Foundation, y float32) {
+// each end. It returns the label that names its modulus and what it
+// carries, to be placed under the base where there is room; false when
+// the bed is out of view.
+func (b *builder) foundation(i int, f fem.Foundation, y float32) (label, bool) {
 	ref := Ref{Kind: Foundation, Index: i}
 	c := b.colourFor(ref, supportColour)
 	x0, x1 := b.clampX(b.sx(f.Start)), b.clampX(b.sx(f.End))
 	if x1-x0 < 1 {
-		return
+		return label{}, false
 	}
 	top := y + memberWidth/2
 	base := top + foundationDepth
@@ -823,6 +831,6 @@ func (b *builder) foundation(i int, f fem.Foundation, y float32) {
 		text += ", Ry " + b.format(units.Force, sol.Foundations[i].Force[fem.Transverse]) // as the supports label theirs
 	}
 	cx := (x0 + x1) / 2
-	b.place(label{lines: []string{text}, size: smallSize, colour: c, optional: true, at: Point{cx, base + 5},
-		spots: []labelSpot{{cx, base + 7, 0.5, 0}, {x0 + 4, base + 7, 0, 0}, {x1 - 4, base + 7, 1, 0}}})
+	return label{lines: []string{text}, size: smallSize, colour: c, optional: true, at: Point{cx, base + 5},
+		spots: []labelSpot{{cx, base + 7, 0.5, 0}, {x0 + 4, base + 7, 0, 0}, {x1 - 4, base + 7, 1, 0}}}, true
 }
