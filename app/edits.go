@@ -34,7 +34,8 @@ func newMember(length float64) fem.Model {
 
 // setLength moves the right end of the member to L. Segment breaks, supports,
 // hinges and loads beyond the new end (a hinge at it too) are removed, and
-// distributed loads and foundations are cut at it, so shortening then lengthening again is not an identity: undo is.
+// distributed loads and foundations are cut at it, so shortening then
+// lengthening again is not an identity: undo is.
 func setLength(m *fem.Model, length float64) error {
 	if !(length > 0) || math.IsInf(length, 0) {
 		return fmt.Errorf("the member length must be a positive number; got %g m", length)

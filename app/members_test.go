@@ -2,6 +2,7 @@ package app
 
 import (
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
@@ -400,5 +401,25 @@ func TestSupportKindChangeKeepsFreeSprings(t *testing.T) {
 	got := w.Model().Supports[2]
 	if want := (fem.Support{X: 8, Kind: fem.Roller, Stiffness: [3]float64{0, 0, 2e5}}); got != want {
 		t.Errorf("after choosing roller the support is %+v, want %+v (%s)", got, want, w.status.Text)
+	}
+}
+
+// Shortening the member takes off the hinges beyond (or at) the new end and
+// the foundations that start beyond it, and cuts the others at it.
+func TestShorteningCutsHingesAndFoundations(t *testing.T) {
+	m := newMember(8)
+	m.Hinges = []fem.Hinge{{X: 2}, {X: 5}, {X: 6}}
+	m.Foundations = []fem.Foundation{{Start: 1, End: 3, Modulus: 1e6}, {Start: 4, End: 7, Modulus: 2e6}, {Start: 5.5, End: 8, Modulus: 3e6}}
+	if err := setLength(&m, 5); err != nil {
+		t.Fatal(err)
+	}
+	if want := []fem.Hinge{{X: 2}}; !slices.Equal(m.Hinges, want) {
+		t.Errorf("hinges %+v, want %+v", m.Hinges, want)
+	}
+	if want := []fem.Foundation{{Start: 1, End: 3, Modulus: 1e6}, {Start: 4, End: 5, Modulus: 2e6}}; !slices.Equal(m.Foundations, want) {
+		t.Errorf("foundations %+v, want %+v", m.Foundations, want)
+	}
+	if err := m.Validate(); err != nil {
+		t.Errorf("the shortened member does not validate: %v", err)
 	}
 }
