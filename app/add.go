@@ -53,21 +53,22 @@ var addKinds = []addKind{
 		fields: func(f *addForm) []addField {
 			fs := []addField{positionField}
 			k := f.supportKind()
+			// A settlement for each motion the kind holds, a stiffness for
+			// each it leaves free: a roller may turn against a spring.
+			start := [3]float64{}
 			if k == fem.Spring {
-				start := [3]float64{1e7, 1e6, 0} // as the support tool places them
-				for d, q := range []units.Kind{units.TranslationalStiffness, units.TranslationalStiffness, units.RotationalStiffness} {
-					dof := fem.Dof(d)
-					fs = append(fs, addField{key: "k" + dof.String(), label: capital(dof.String()) + " stiffness", q: q,
-						place: fem.Place{Property: fem.MotionStiffnessProperty, Dof: dof}, start: f.w.units.Format(q, start[d])})
-				}
-				return fs
+				start = [3]float64{1e7, 1e6, 0} // as the support tool places them
 			}
 			for d, q := range []units.Kind{units.Deflection, units.Deflection, units.Rotation} {
 				dof := fem.Dof(d)
 				if k.Restrains(dof) {
 					fs = append(fs, addField{key: "s" + dof.String(), label: capital(dof.String()) + " settlement", q: q,
 						place: fem.Place{Property: fem.SettlementProperty, Dof: dof}, start: "0"})
+					continue
 				}
+				q := stiffnessKinds[d]
+				fs = append(fs, addField{key: "k" + dof.String(), label: stiffnessNames[d] + ", 0 = free", q: q,
+					place: fem.Place{Property: fem.MotionStiffnessProperty, Dof: dof}, start: f.w.units.Format(q, start[d])})
 			}
 			return fs
 		},
@@ -145,6 +146,40 @@ var addKinds = []addKind{
 		selects: canvas.DistributedLoad,
 	},
 	{
+		name: "Hinge",
+		fields: func(*addForm) []addField {
+			return []addField{positionField,
+				{key: "khinge", label: "Stiffness across it, 0 = pure hinge", q: units.RotationalStiffness,
+					place: fem.Place{Property: fem.StiffnessProperty}, start: "0"}}
+		},
+		item: func(m *fem.Model) fem.Item { return fem.Item{Kind: fem.HingeItem, Index: len(m.Hinges)} },
+		put: func(_ *addForm, m *fem.Model, v map[string]float64) error {
+			m.Hinges = append(m.Hinges, fem.Hinge{X: v["x"], Stiffness: v["khinge"]})
+			return nil
+		},
+		selects: canvas.Hinge,
+	},
+	{
+		name: "Foundation",
+		fields: func(*addForm) []addField {
+			field := func(key, label string, q units.Kind, p fem.Property, start string) addField {
+				return addField{key: key, label: label, q: q, place: fem.Place{Property: p}, start: start}
+			}
+			return []addField{
+				field("start", "Start x", units.Position, fem.StartProperty, ""),
+				field("end", "End x", units.Position, fem.EndProperty, ""),
+				field("modulus", "Modulus across the member", units.FoundationModulus, fem.ModulusProperty, ""),
+				field("axialmodulus", "Modulus along the member, 0 = free", units.FoundationModulus, fem.AxialModulusProperty, "0"),
+			}
+		},
+		item: func(m *fem.Model) fem.Item { return fem.Item{Kind: fem.FoundationItem, Index: len(m.Foundations)} },
+		put: func(_ *addForm, m *fem.Model, v map[string]float64) error {
+			m.Foundations = append(m.Foundations, fem.Foundation{Start: v["start"], End: v["end"], Modulus: v["modulus"], AxialModulus: v["axialmodulus"]})
+			return nil
+		},
+		selects: canvas.Foundation,
+	},
+	{
 		name:   "Segment break",
 		fields: func(*addForm) []addField { return []addField{positionField} },
 		// The break makes two segments of one: any problem with segments is the position's.
@@ -159,6 +194,13 @@ var addKinds = []addKind{
 	},
 }
 
+// stiffnessKinds and stiffnessNames are the kinds and names of a support's
+// stiffness per motion.
+var (
+	stiffnessKinds = [3]units.Kind{units.TranslationalStiffness, units.TranslationalStiffness, units.RotationalStiffness}
+	stiffnessNames = [3]string{"Axial stiffness", "Transverse stiffness", "Rotational stiffness"}
+)
+
 var momentField = addField{key: "moment", label: "Moment (+ counter-clockwise)", q: units.Moment, place: fem.Place{Property: fem.MomentProperty}, start: "0"}
 
 // locatedError is a problem with the value of one field.
@@ -170,7 +212,8 @@ func (e locatedError) Error() string { return e.message }
 
 func capital(s string) string { return strings.ToUpper(s[:1]) + s[1:] }
 
-// addForm places a support, load or segment break typed in display units.
+// addForm places a support, load, hinge, foundation or segment break typed
+// in display units.
 type addForm struct {
 	w       *Window
 	kind    *widget.Select // what to add
@@ -328,8 +371,8 @@ func (f *addForm) submit() bool {
 		what = f.supportKind().String() + " support"
 	}
 	name := fmt.Sprintf("add a %s at x = %s", what, w.position(values["x"]))
-	if k.name == "Line load" {
-		name = fmt.Sprintf("add a line load from x = %s to %s", w.position(values["start"]), w.position(values["end"]))
+	if k.name == "Line load" || k.name == "Foundation" {
+		name = fmt.Sprintf("add a %s from x = %s to %s", what, w.position(values["start"]), w.position(values["end"]))
 	}
 	var item fem.Item
 	if w.apply(name, func(m *fem.Model) error {

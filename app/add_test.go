@@ -157,6 +157,10 @@ func TestAddFormRefusesBadInput(t *testing.T) {
 		{"no load at all", "Point load", map[string]string{"x": "1"}, []string{"Transverse force (+ up):", "all zero"}},
 		{"a line load ending before it starts", "Line load", map[string]string{"start": "4", "end": "2", "qstart": "-1", "qend": "-1"}, []string{"End x:"}},
 		{"a break at the member end", "Segment break", map[string]string{"x": "5.5"}, []string{"Position x:"}},
+		{"a hinge at the member end", "Hinge", map[string]string{"x": "5.5"}, []string{"Position x:", "end of the member"}},
+		{"a negative hinge stiffness", "Hinge", map[string]string{"x": "2", "khinge": "-3"}, []string{"Stiffness across it, 0 = pure hinge:", "negative"}},
+		{"a foundation ending before it starts", "Foundation", map[string]string{"start": "4", "end": "2", "modulus": "1000"}, []string{"End x:"}},
+		{"a foundation with no stiffness", "Foundation", map[string]string{"start": "1", "end": "2", "modulus": "0", "axialmodulus": "0"}, []string{"Modulus across the member:", "no stiffness"}},
 		{"control: a good support", "Support", map[string]string{"x": "2"}, nil},
 	} {
 		w, _ := newTestWindow(t, demoProject(t))

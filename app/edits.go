@@ -32,9 +32,10 @@ func newMember(length float64) fem.Model {
 	}
 }
 
-// setLength moves the right end of the member to L. Segment breaks, supports
-// and loads beyond the new end are removed and distributed loads are cut at
-// it, so shortening then lengthening again is not an identity: undo is.
+// setLength moves the right end of the member to L. Segment breaks, supports,
+// hinges and loads beyond the new end (a hinge at it too) are removed, and
+// distributed loads and foundations are cut at it, so shortening then
+// lengthening again is not an identity: undo is.
 func setLength(m *fem.Model, length float64) error {
 	if !(length > 0) || math.IsInf(length, 0) {
 		return fmt.Errorf("the member length must be a positive number; got %g m", length)
@@ -58,6 +59,21 @@ func setLength(m *fem.Model, length float64) error {
 		}
 	}
 	m.Supports = sup
+	hinges := m.Hinges[:0]
+	for _, h := range m.Hinges {
+		if h.X < length-sameX {
+			hinges = append(hinges, h)
+		}
+	}
+	m.Hinges = hinges
+	beds := m.Foundations[:0]
+	for _, f := range m.Foundations {
+		if f.Start < length-sameX {
+			f.End = min(f.End, length)
+			beds = append(beds, f)
+		}
+	}
+	m.Foundations = beds
 	pl := m.PointLoads[:0]
 	for _, p := range m.PointLoads {
 		if p.X <= length+sameX {
@@ -196,6 +212,10 @@ func remove(m *fem.Model, r canvas.Ref) error {
 		m.Supports = append(m.Supports[:r.Index], m.Supports[r.Index+1:]...)
 	case canvas.PointLoad:
 		m.PointLoads = append(m.PointLoads[:r.Index], m.PointLoads[r.Index+1:]...)
+	case canvas.Hinge:
+		m.Hinges = append(m.Hinges[:r.Index], m.Hinges[r.Index+1:]...)
+	case canvas.Foundation:
+		m.Foundations = append(m.Foundations[:r.Index], m.Foundations[r.Index+1:]...)
 	case canvas.DistributedLoad:
 		m.DistributedLoad = append(m.DistributedLoad[:r.Index], m.DistributedLoad[r.Index+1:]...)
 	case canvas.LoadVertex:
@@ -232,6 +252,10 @@ func describe(r canvas.Ref) string {
 		return fmt.Sprintf("support %d", r.Index+1)
 	case canvas.PointLoad:
 		return fmt.Sprintf("point load %d", r.Index+1)
+	case canvas.Hinge:
+		return fmt.Sprintf("hinge %d", r.Index+1)
+	case canvas.Foundation:
+		return fmt.Sprintf("foundation %d", r.Index+1)
 	case canvas.DistributedLoad:
 		return fmt.Sprintf("distributed load %d", r.Index+1)
 	case canvas.LoadVertex:

@@ -69,8 +69,7 @@ type controls struct {
 func (w *Window) build() {
 	c := &controls{w: w, toolButtons: map[tool]*widget.Button{}, layerChecks: map[*bool]*widget.Check{}}
 	w.ui = c
-	w.status = widget.NewLabel("")
-	w.status.Truncation = fyne.TextTruncateEllipsis
+	w.status = newStatusLine(w)
 
 	strip := container.NewVBox(heading("Tools"))
 	for _, t := range tools {

@@ -2,6 +2,8 @@ package app
 
 import (
 	"fmt"
+	"math"
+	"strconv"
 	"strings"
 
 	"fyne.io/fyne/v2"
@@ -57,23 +59,44 @@ func fieldsFor(m *fem.Model, r canvas.Ref) []field {
 			num("Density", units.Density, func(m *fem.Model) *float64 { return &s(m).Material.Density }),
 			num("Thermal expansion α", units.ThermalExpansion, func(m *fem.Model) *float64 { return &s(m).Material.ThermalExpansion }),
 			num("Allowable stress (0 = none)", units.Stress, func(m *fem.Model) *float64 { return &s(m).Material.Allowable }),
+			num("Temperature ΔT (bottom − top)", units.TemperatureChange, func(m *fem.Model) *float64 { return &s(m).TemperatureDifference }),
+			num("Depth h (0 = 2c)", units.Dimension, func(m *fem.Model) *float64 { return &s(m).Section.Depth }),
+			// Shown with shear deformation off too, so they can be typed
+			// before it is switched on (it needs them).
+			num("Shear area As (0 = κ·A)", units.Area, func(m *fem.Model) *float64 { return &s(m).Section.ShearArea }),
+			num("Shear coefficient κ", ratio, func(m *fem.Model) *float64 { return &s(m).Section.ShearCoefficient }),
+			num("Shear modulus G (0 = from E, ν)", units.Modulus, func(m *fem.Model) *float64 { return &s(m).Material.ShearModulus }),
+			num("Poisson's ratio ν", ratio, func(m *fem.Model) *float64 { return &s(m).Material.Poisson }),
 		}
 	case canvas.Support:
 		s := func(m *fem.Model) *fem.Support { return &m.Supports[i] }
 		fs := []field{pos("x", func(m *fem.Model) *float64 { return &s(m).X })}
 		k := m.Supports[i].Kind
-		if k == fem.Spring {
-			fs = append(fs,
-				num("Axial stiffness", units.TranslationalStiffness, func(m *fem.Model) *float64 { return &s(m).Stiffness[0] }),
-				num("Transverse stiffness", units.TranslationalStiffness, func(m *fem.Model) *float64 { return &s(m).Stiffness[1] }),
-				num("Rotational stiffness", units.RotationalStiffness, func(m *fem.Model) *float64 { return &s(m).Stiffness[2] }))
-		}
+		// A settlement for each motion the kind holds, a stiffness for each
+		// it leaves free (a mixed support: a roller that turns against a spring).
 		for d, q := range []units.Kind{units.Deflection, units.Deflection, units.Rotation} {
-			if k.Restrains(fem.Dof(d)) {
-				fs = append(fs, num("Settlement "+fem.Dof(d).String(), q, func(m *fem.Model) *float64 { return &s(m).Settlement[d] }))
+			dof := fem.Dof(d)
+			if k.Restrains(dof) {
+				fs = append(fs, num("Settlement "+dof.String(), q, func(m *fem.Model) *float64 { return &s(m).Settlement[d] }))
+			} else {
+				fs = append(fs, num(stiffnessNames[d]+" (0 = free)", stiffnessKinds[d], func(m *fem.Model) *float64 { return &s(m).Stiffness[d] }))
 			}
 		}
 		return fs
+	case canvas.Hinge:
+		h := func(m *fem.Model) *fem.Hinge { return &m.Hinges[i] }
+		return []field{
+			pos("x", func(m *fem.Model) *float64 { return &h(m).X }),
+			num("Rotational stiffness (0 = pure hinge)", units.RotationalStiffness, func(m *fem.Model) *float64 { return &h(m).Stiffness }),
+		}
+	case canvas.Foundation:
+		f := func(m *fem.Model) *fem.Foundation { return &m.Foundations[i] }
+		return []field{
+			pos("Start x", func(m *fem.Model) *float64 { return &f(m).Start }),
+			pos("End x", func(m *fem.Model) *float64 { return &f(m).End }),
+			num("Modulus across", units.FoundationModulus, func(m *fem.Model) *float64 { return &f(m).Modulus }),
+			num("Modulus along (0 = free)", units.FoundationModulus, func(m *fem.Model) *float64 { return &f(m).AxialModulus }),
+		}
 	case canvas.PointLoad:
 		p := func(m *fem.Model) *fem.PointLoad { return &m.PointLoads[i] }
 		return []field{
@@ -118,7 +141,9 @@ func panelKey(m *fem.Model, r canvas.Ref, fields []field, u units.System) string
 	case canvas.DistributedLoad, canvas.LoadVertex:
 		k += m.DistributedLoad[r.Index].Direction.String()
 	case canvas.Segment:
-		k += m.Segments[r.Index].Material.Name
+		k += fmt.Sprintf("%s|%v", m.Segments[r.Index].Material.Name, m.Segments[r.Index].ShearDeformation)
+	case canvas.None, canvas.Member, canvas.MemberEnd:
+		k += fmt.Sprint(m.AxialOnly)
 	}
 	return k
 }
@@ -141,7 +166,7 @@ func (c *controls) showProperties() {
 	key := panelKey(m, r, fields, w.units)
 	if key == p.key {
 		for k, f := range fields {
-			text := w.units.Format(f.q, f.get(m))
+			text := w.formatField(f.q, f.get(m))
 			if p.entries[k].Text == p.shown[k] { // leave what the user is typing
 				p.entries[k].SetText(text)
 			}
@@ -168,7 +193,7 @@ func (c *controls) showProperties() {
 	}
 	for k, f := range fields {
 		e := widget.NewEntry()
-		shown[k] = w.units.Format(f.q, f.get(m))
+		shown[k] = w.formatField(f.q, f.get(m))
 		e.SetText(shown[k])
 		e.OnSubmitted = func(string) { applyAll() }
 		entries[k] = e
@@ -205,6 +230,29 @@ func (c *controls) showProperties() {
 	c.properties.Objects = []fyne.CanvasObject{container.NewBorder(heading("Properties — "+title), foot, nil, nil,
 		container.NewVScroll(container.NewVBox(objects...)))}
 	c.properties.Refresh()
+}
+
+// ratio is the kind of a field that has no unit (κ, ν): a plain number.
+const ratio units.Kind = -1
+
+// formatField shows an SI value of kind q as its entry shows it.
+func (w *Window) formatField(q units.Kind, v float64) string {
+	if q == ratio {
+		return units.FormatNumber(v)
+	}
+	return w.units.Format(q, v)
+}
+
+// parseField reads what was typed for a value of kind q, in SI.
+func (w *Window) parseField(q units.Kind, text string) (float64, error) {
+	if q != ratio {
+		return w.units.Parse(q, text)
+	}
+	v, err := strconv.ParseFloat(strings.TrimSpace(text), 64)
+	if err != nil || math.IsInf(v, 0) || math.IsNaN(v) {
+		return 0, fmt.Errorf("expected a plain number with no unit, such as 0.3; got '%s'", strings.TrimSpace(text))
+	}
+	return v, nil
 }
 
 // typingHint says how typed numbers are read, with an example in the
@@ -259,7 +307,13 @@ func (c *controls) choices(r canvas.Ref) []fyne.CanvasObject {
 			k, _ := fem.ParseSupportKind(name)
 			if k != w.project.Model.Supports[r.Index].Kind {
 				w.apply(fmt.Sprintf("make %s %s", describe(r), name), func(m *fem.Model) error {
-					m.Supports[r.Index].Kind = k
+					s := &m.Supports[r.Index]
+					s.Kind = k
+					for d := range s.Stiffness { // a spring where the kind now holds rigidly goes
+						if k.Restrains(fem.Dof(d)) {
+							s.Stiffness[d] = 0
+						}
+					}
 					return nil
 				})
 			}
@@ -286,8 +340,39 @@ func (c *controls) choices(r canvas.Ref) []fyne.CanvasObject {
 			}
 		}
 		return []fyne.CanvasObject{container.NewBorder(nil, nil, widget.NewLabel("Direction"), nil, s)}
+	case canvas.Segment:
+		return []fyne.CanvasObject{c.toggle("Shear deformation (Timoshenko beam)",
+			m.Segments[r.Index].ShearDeformation, fmt.Sprintf("shear deformation of segment %d", r.Index+1),
+			func(m *fem.Model) *bool { return &m.Segments[r.Index].ShearDeformation })}
+	case canvas.None, canvas.Member, canvas.MemberEnd:
+		if len(m.Segments) == 0 {
+			return nil
+		}
+		return []fyne.CanvasObject{c.toggle("Axial only (tie or strut)", m.AxialOnly, "axial only",
+			func(m *fem.Model) *bool { return &m.AxialOnly })}
 	}
 	return nil
+}
+
+// toggle is a check box for the setting at, applied as one edit named
+// after what when it changes.
+func (c *controls) toggle(label string, on bool, what string, at func(m *fem.Model) *bool) fyne.CanvasObject {
+	w := c.w
+	box := widget.NewCheck(label, nil)
+	box.SetChecked(on)
+	box.OnChanged = func(on bool) {
+		if on == *at(&w.project.Model) {
+			return
+		}
+		name := "switch off " + what
+		if on {
+			name = "switch on " + what
+		}
+		if w.apply(name, func(m *fem.Model) error { *at(m) = on; return nil }) != nil {
+			box.SetChecked(!on) // refused: show what the model holds
+		}
+	}
+	return box
 }
 
 // applyFields parses the changed entries and applies them together as one
@@ -303,7 +388,7 @@ func (w *Window) applyFields(title string, r canvas.Ref, fields []field, entries
 			continue
 		}
 		changed[k], anyChanged = true, true
-		v, err := w.units.Parse(f.q, entries[k].Text)
+		v, err := w.parseField(f.q, entries[k].Text)
 		if err != nil {
 			return fmt.Errorf("%s: %v", f.label, err)
 		}

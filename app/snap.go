@@ -35,7 +35,7 @@ func newSnapper(m *fem.Model, moving canvas.Ref, grid, metresPerPixel float64) s
 // moves reports whether dragging the part moving carries feature f along.
 // A segment carries the break at its end (its own end and the next
 // segment's start), the member end the last segment's end, a distributed
-// load or one of its vertices the whole load.
+// load or one of its vertices the whole load, a foundation both its ends.
 func moves(moving canvas.Ref, f fem.Feature, segments int) bool {
 	it := f.Item
 	switch moving.Kind {
@@ -47,6 +47,10 @@ func moves(moving canvas.Ref, f fem.Feature, segments int) bool {
 		return it.Kind == fem.SupportItem && it.Index == moving.Index
 	case canvas.PointLoad:
 		return it.Kind == fem.PointLoadItem && it.Index == moving.Index
+	case canvas.Hinge:
+		return it.Kind == fem.HingeItem && it.Index == moving.Index
+	case canvas.Foundation:
+		return it.Kind == fem.FoundationItem && it.Index == moving.Index
 	case canvas.DistributedLoad, canvas.LoadVertex:
 		return it.Kind == fem.DistributedLoadItem && it.Index == moving.Index
 	}

@@ -9,7 +9,6 @@ import (
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/driver/desktop"
-	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
 	"stave/canvas/report"
@@ -81,7 +80,7 @@ type Window struct {
 
 	draw   *drawing
 	ui     *controls
-	status *widget.Label
+	status *statusLine
 
 	recoveryDir  string
 	stopAutosave func()
@@ -178,6 +177,7 @@ func (w *Window) updateTitle() {
 
 // setStatus shows a message beside the caution, followed by a pending note.
 func (w *Window) setStatus(format string, args ...any) {
+	w.status.at = canvas.Ref{}
 	w.status.SetText(fmt.Sprintf(format, args...) + w.note)
 	w.note = ""
 }
@@ -202,6 +202,7 @@ func (w *Window) apply(name string, change func(m *fem.Model) error) error {
 	}
 	if err := w.validate(&cand); err != nil {
 		w.setStatus("%s not applied: %v", name, err)
+		w.status.locate(err, &cand)
 		return err
 	}
 	before := w.project.Model
@@ -275,28 +276,43 @@ func (w *Window) redo() {
 
 // keepSelectionValid drops a selection whose item no longer exists.
 func (w *Window) keepSelectionValid() {
-	m := &w.project.Model
 	r := w.selected
 	ok := true
 	switch r.Kind {
-	case canvas.Support:
-		ok = r.Index < len(m.Supports)
-	case canvas.PointLoad:
-		ok = r.Index < len(m.PointLoads)
-	case canvas.DistributedLoad:
-		ok = r.Index < len(m.DistributedLoad)
 	case canvas.LoadVertex:
+		m := &w.project.Model
 		ok = r.Index < len(m.DistributedLoad) && r.Vertex < len(m.DistributedLoad[r.Index].Points)
-	case canvas.Segment:
-		ok = r.Index < len(m.Segments)
 	case canvas.Member, canvas.MemberEnd:
-		ok = len(m.Segments) > 0
+		ok = len(w.project.Model.Segments) > 0
 	case canvas.Element:
 		ok = w.draw.nodal.on
+	case canvas.None, canvas.CheckMark:
+	default:
+		ok = r.Index < count(&w.project.Model, r.Kind)
 	}
 	if !ok {
 		w.selected = canvas.Ref{}
 	}
+}
+
+// count is the number of items of kind k (one of the kinds a model lists:
+// segments, supports, hinges, foundations, point and distributed loads) in m.
+func count(m *fem.Model, k canvas.RefKind) int {
+	switch k {
+	case canvas.Segment:
+		return len(m.Segments)
+	case canvas.Support:
+		return len(m.Supports)
+	case canvas.Hinge:
+		return len(m.Hinges)
+	case canvas.Foundation:
+		return len(m.Foundations)
+	case canvas.PointLoad:
+		return len(m.PointLoads)
+	case canvas.DistributedLoad:
+		return len(m.DistributedLoad)
+	}
+	return 0
 }
 
 func (w *Window) selectItem(r canvas.Ref) {
@@ -499,6 +515,7 @@ func (w *Window) dragTo(g *gesture, ev *fyne.DragEvent) {
 	}
 	if err := w.validate(&cand); err != nil {
 		w.setStatus("cannot go there: %v", err)
+		w.status.locate(err, &cand)
 		return
 	}
 	w.setModel(cand)
@@ -520,6 +537,13 @@ func (w *Window) dragModel(m *fem.Model, g *gesture, p fyne.Position) error {
 		m.Supports[r.Index].X = x
 	case canvas.PointLoad:
 		m.PointLoads[r.Index].X = x
+	case canvas.Hinge:
+		m.Hinges[r.Index].X = x
+	case canvas.Foundation:
+		// Sideways, its start snapped, its length kept.
+		was := g.before.Foundations[r.Index]
+		shift := d.sideways(g, p, was.Start, r)
+		m.Foundations[r.Index].Start, m.Foundations[r.Index].End = was.Start+shift, was.End+shift
 	case canvas.MemberEnd:
 		s := snapper{grid: w.gridStep(d.metresPerPixel())}
 		return setLength(m, s.snap(d.view.ToModelX(p.X)))
@@ -530,8 +554,7 @@ func (w *Window) dragModel(m *fem.Model, g *gesture, p fyne.Position) error {
 		m.Segments[r.Index].End, m.Segments[r.Index+1].Start = x, x
 	case canvas.DistributedLoad:
 		pts := m.DistributedLoad[r.Index].Points
-		first := g.before.DistributedLoad[r.Index].Points[0].X
-		shift := d.snapX(d.view.ToScreenX(first)+p.X-g.start.X, r) - first
+		shift := d.sideways(g, p, g.before.DistributedLoad[r.Index].Points[0].X, r)
 		for i := range pts {
 			pts[i].X += shift
 		}
@@ -552,6 +575,13 @@ func (w *Window) dragModel(m *fem.Model, g *gesture, p fyne.Position) error {
 		}
 	}
 	return nil
+}
+
+// sideways is how far, m, the drag g to p carries an item whose start was
+// at x when it began, with the start snapped (r, the item, snaps to none of
+// its own points).
+func (d *drawing) sideways(g *gesture, p fyne.Position, x float64, r canvas.Ref) float64 {
+	return d.snapX(d.view.ToScreenX(x)+p.X-g.start.X, r) - x
 }
 
 // roundLoad keeps dragged intensities to three significant figures: a drag

@@ -41,7 +41,9 @@ const (
 	titleSize     = 12
 	problemSize   = 15
 	supportHeight = 26
-	arrowLength   = 44
+	// foundationDepth is the height of a foundation's bed under the member.
+	foundationDepth = 12
+	arrowLength     = 44
 )
 
 // builder accumulates a scene.

@@ -2,9 +2,13 @@ package canvas
 
 import (
 	"fmt"
+	"image/color"
 	"reflect"
 	"strings"
 	"testing"
+
+	"stave/fem"
+	"stave/fem/units"
 )
 
 // scenePoints counts the coordinates a renderer must handle.
@@ -260,4 +264,57 @@ func TestAroundBoxes(t *testing.T) {
 			t.Errorf("%s: around gives %v, want %v", c.name, got, c.want)
 		}
 	}
+}
+
+// Hinges and foundations are picked like supports: a hinge's ring on the
+// member, a foundation's bed under it, and a support standing in the bed
+// stays the support's.
+func TestHitTestHingeAndFoundation(t *testing.T) {
+	m := demoModel(20)
+	m.Supports = append(m.Supports, fem.Support{X: 6, Kind: fem.Roller})
+	m.Hinges = []fem.Hinge{{X: 5.2}}
+	m.Foundations = []fem.Foundation{{Start: 0, End: 3.5, Modulus: 5e6}}
+	in := solved(t, m)
+	v := NewView(1000, 800)
+	v.Fit(m)
+	s := Build(in, v)
+	y := s.MemberY
+	tests := []struct {
+		name   string
+		px, py float32
+		want   Ref
+	}{
+		{"hinge ring on the member", v.ToScreenX(5.2), y, Ref{Kind: Hinge}},
+		{"just beside the hinge", v.ToScreenX(5.2) + 4, y + 3, Ref{Kind: Hinge}},
+		{"member away from the hinge", v.ToScreenX(5.6), y, Ref{Kind: Member}},
+		{"foundation bed under the member", v.ToScreenX(2.7), y + 9, Ref{Kind: Foundation}},
+		{"foundation bed near its end", v.ToScreenX(3.45), y + 12, Ref{Kind: Foundation}},
+		{"member over the foundation", v.ToScreenX(2.7), y, Ref{Kind: Member}},
+		{"pinned support standing in the bed", v.ToScreenX(0), y + 18, Ref{Kind: Support, Index: 0}},
+		{"below the bed, clear of it", v.ToScreenX(2.7), y + 40, Ref{}},
+	}
+	for _, tc := range tests {
+		if got := s.HitTest(tc.px, tc.py, 3); got != tc.want {
+			t.Errorf("%s at (%.0f, %.0f): hit %v %d, want %v %d", tc.name, tc.px, tc.py, got.Kind, got.Index, tc.want.Kind, tc.want.Index)
+		}
+	}
+	in.Selected = Ref{Kind: Foundation}
+	if !hasColour(Build(in, v), selectedColour, v.ToScreenX(1), v.ToScreenX(3.5)) {
+		t.Errorf("a selected foundation is not drawn in the selection colour")
+	}
+	carried := units.SI.Format(units.Force, in.Solution.Foundations[0].Force[fem.Transverse])
+	if !hasText(s, "bed 5000 kN/m², Ry "+carried) { // 5e6 N/m² in kN/m², and the solution's share
+		t.Errorf("no modulus label under the foundation among %v", texts(s))
+	}
+}
+
+// hasColour reports whether some line of s in colour c lies between the
+// screen x x0 and x1.
+func hasColour(s *Scene, c color.NRGBA, x0, x1 float32) bool {
+	for _, it := range s.Items {
+		if it.Kind == Polyline && it.Stroke == c && len(it.Points) > 0 && it.Points[0].X >= x0 && it.Points[0].X <= x1 {
+			return true
+		}
+	}
+	return false
 }

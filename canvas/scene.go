@@ -38,10 +38,12 @@ const (
 	LoadVertex              // Model.DistributedLoad[Index].Points[Vertex]: drag up/down for intensity
 	CheckMark               // a marked check (Index is the caller's check index)
 	Element                 // Solution.Mesh.Elements[Index], in the nodal loads' strip
+	Hinge                   // Model.Hinges[Index]
+	Foundation              // Model.Foundations[Index]: drag sideways to move
 )
 
 var refKindNames = [...]string{"none", "member", "member end", "segment", "support",
-	"point load", "distributed load", "load vertex", "check mark", "element"}
+	"point load", "distributed load", "load vertex", "check mark", "element", "hinge", "foundation"}
 
 // String names the kind in plain words.
 func (k RefKind) String() string {

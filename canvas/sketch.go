@@ -44,9 +44,19 @@ func (b *builder) sketch(lay layoutBands) {
 		deflected = b.deflected(lay)
 	}
 
-	// Supports first: their boxes keep labels away from them.
+	// Foundations and supports first: their boxes keep labels away from
+	// them, and a support's handle lies over the bed it stands in.
+	var beds []label
+	for i, f := range m.Foundations {
+		if l, ok := b.foundation(i, f, y); ok {
+			beds = append(beds, l)
+		}
+	}
 	for i, sp := range m.Supports {
 		b.support(i, sp, y)
+	}
+	for _, l := range beds { // clear of the supports standing in the beds
+		b.place(l)
 	}
 	memberColour := b.colourFor(Ref{Kind: Member}, inkColour)
 	b.line(memberColour, memberWidth, Point{x0, y}, Point{x1, y})
@@ -59,8 +69,8 @@ func (b *builder) sketch(lay layoutBands) {
 	b.circle(end, 4, white, b.colourFor(Ref{Kind: MemberEnd}, inkColour), 1.5)
 	b.symbol(rect{end.X - 5, end.Y - 5, end.X + 5, end.Y + 5})
 	b.handle(Ref{Kind: MemberEnd}, 6, end)
-	for _, h := range m.Hinges {
-		b.hinge(h, y)
+	for i, h := range m.Hinges {
+		b.hinge(i, h, y)
 	}
 
 	b.distributedLoads(lay)
@@ -757,16 +767,70 @@ func trimFloat(v float64) string {
 
 // hinge draws a moment release: an open ring on the member axis that the
 // member passes through, and for a semi-rigid joint a small coil above it.
-func (b *builder) hinge(h fem.Hinge, y float32) {
+func (b *builder) hinge(i int, h fem.Hinge, y float32) {
+	ref := Ref{Kind: Hinge, Index: i}
+	c := b.colourFor(ref, inkColour)
 	x := b.sx(h.X)
-	b.circle(Point{x, y}, 5, white, inkColour, 1.6)
+	b.circle(Point{x, y}, 5, white, c, 1.6)
 	if h.Stiffness > 0 {
 		var pts []Point
 		for t := 0.0; t <= 3*math.Pi; t += 0.25 {
 			r := float32(1.5 + t)
 			pts = append(pts, Point{x + r*float32(math.Cos(t)), y - 12 - r*float32(math.Sin(t))*0.7})
 		}
-		b.line(inkColour, 1.1, pts...)
+		b.line(c, 1.1, pts...)
 	}
+	b.handle(ref, 6, Point{x, y})
 	b.symbol(rect{x - 8, y - 24, x + 8, y + 7})
+}
+
+// foundation draws an elastic bed under the stretch it carries: short
+// springs standing on a hatched base line, with a slanted end post at
+// each end. It returns the label that names its modulus and what it
+// carries, to be placed under the base where there is room; false when
+// the bed is out of view.
+func (b *builder) foundation(i int, f fem.Foundation, y float32) (label, bool) {
+	ref := Ref{Kind: Foundation, Index: i}
+	c := b.colourFor(ref, supportColour)
+	x0, x1 := b.clampX(b.sx(f.Start)), b.clampX(b.sx(f.End))
+	if x1-x0 < 1 {
+		return label{}, false
+	}
+	top := y + memberWidth/2
+	base := top + foundationDepth
+	b.line(c, 1.5, Point{x0, base}, Point{x1, base})
+	b.line(c, 1.2, Point{x0, top}, Point{x0 - 4, base})
+	b.line(c, 1.2, Point{x1, top}, Point{x1 + 4, base})
+	for x := x0 + 3; x <= x1; x += 6 {
+		b.line(hatchColour, 1, Point{x, base}, Point{x - 5, base + 5})
+	}
+	// Springs about 16 px apart, spread evenly across the stretch.
+	n := max(1, int((x1-x0)/16))
+	step := (x1 - x0) / float32(n)
+	for k := 0; k < n; k++ {
+		x := x0 + step*(float32(k)+0.5)
+		pts := []Point{{x, top}, {x, top + 2}}
+		for j := range 4 {
+			off := float32(3)
+			if j%2 == 1 {
+				off = -3
+			}
+			pts = append(pts, Point{x + off, top + 3.5 + float32(j)*1.8})
+		}
+		pts = append(pts, Point{x, base - 1.5}, Point{x, base})
+		b.line(c, 1, pts...)
+	}
+	mid := base - foundationDepth/2
+	b.handle(ref, foundationDepth/2+2, Point{x0, mid}, Point{x1, mid})
+	b.symbol(rect{x0 - 4, top, x1 + 4, base + 5})
+	text := "bed " + b.format(units.FoundationModulus, f.Modulus)
+	if f.AxialModulus > 0 {
+		text += ", along " + b.format(units.FoundationModulus, f.AxialModulus)
+	}
+	if sol := b.in.Solution; sol != nil && i < len(sol.Foundations) {
+		text += ", Ry " + b.format(units.Force, sol.Foundations[i].Force[fem.Transverse]) // as the supports label theirs
+	}
+	cx := (x0 + x1) / 2
+	return label{lines: []string{text}, size: smallSize, colour: c, optional: true, at: Point{cx, base + 5},
+		spots: []labelSpot{{cx, base + 7, 0.5, 0}, {x0 + 4, base + 7, 0, 0}, {x1 - 4, base + 7, 1, 0}}}, true
 }
