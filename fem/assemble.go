@@ -59,7 +59,7 @@ func assemble(m *Model, nodes []float64, els []elementData, form Formulation) (*
 	if err := as.ldl.Factorize(a); err != nil {
 		var pe *band.PivotError
 		if errors.As(err, &pe) {
-			return nil, pivotMessage(nodes, form, pe)
+			return nil, pivotMessage(m, nodes, form, pe)
 		}
 		return nil, err
 	}
@@ -188,10 +188,11 @@ func PlainSystem(m *Model, mesh Mesh, problem string) (a *band.Symmetric, b []fl
 }
 
 // pivotMessage turns a failed pivot into a message that names the place and
-// the likeliest cause: a stretch of the key-point system much shorter than
-// the member (a stiff piece no load can bend), else springs or stiffnesses
-// far apart.
-func pivotMessage(nodes []float64, form Formulation, pe *band.PivotError) error {
+// the likeliest cause: a mesh too fine over an elastic foundation (whose
+// every node enters the equations), a stretch of the key-point system much
+// shorter than the member (a stiff piece no load can bend), else springs or
+// stiffnesses far apart.
+func pivotMessage(m *Model, nodes []float64, form Formulation, pe *band.PivotError) error {
 	node := len(nodes) - 1
 	for i := range nodes {
 		if form.nodeDof(i, 0) >= pe.Row {
@@ -201,6 +202,9 @@ func pivotMessage(nodes []float64, form Formulation, pe *band.PivotError) error 
 	}
 	x := nodes[node]
 	length := nodes[len(nodes)-1] - nodes[0]
+	if k, ka := m.foundationAt(x); k > 0 || ka > 0 {
+		return fmt.Errorf("the %s equations over the elastic foundation near x = %s are singular to working precision: on a foundation every node of the mesh enters them (%d nodes here), and they grow ill-conditioned as the fourth power of the number of elements; use fewer elements over the foundation, or leave the mesh to Stave", form.Problem(), fmtMetres(x), len(nodes))
+	}
 	for i := max(node-1, 0); i < min(node+1, len(nodes)-1); i++ {
 		if h := nodes[i+1] - nodes[i]; h < shortStretch*length {
 			a, b := fmtPair(nodes[i], nodes[i+1])

@@ -366,3 +366,17 @@ func TestFoundationWalk(t *testing.T) {
 		t.Errorf("energy error %.3g on 300 elements, %.3g on 1,200: ratio %.3g, want about 16", norms.RelativeEnergy, finer.RelativeEnergy, r)
 	}
 }
+
+// A mesh far too fine over a foundation makes the equations singular to
+// working precision (their condition grows as the fourth power of the
+// elements there); the refusal names the foundation and the fix, not close
+// supports.
+func TestTooFineOverAFoundation(t *testing.T) {
+	m := groundModel(12, 1e7)
+	m.PointLoads = []PointLoad{{X: 3, Transverse: -1e5}}
+	m.Mesh = MeshSettings{Elements: 100000}
+	_, err := Solve(m)
+	if err == nil || !strings.Contains(err.Error(), "over the elastic foundation") || !strings.Contains(err.Error(), "use fewer elements over the foundation") {
+		t.Errorf("got %v, want a refusal naming the foundation's mesh", err)
+	}
+}
