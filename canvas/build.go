@@ -54,8 +54,10 @@ type builder struct {
 	u  units.System
 	// boxes are the places labels must keep off (see place); curves the
 	// lines they keep clear of where they can.
-	boxes  []box
-	curves [][]Point
+	boxes []box
+	// boxGrid finds the boxes near a place (see occupy).
+	boxGrid boxGrid
+	curves  [][]Point
 	// band bounds the labels placed while a band (the sketch, a strip) is
 	// drawn; zero for the whole scene.
 	band rect

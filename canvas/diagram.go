@@ -366,7 +366,7 @@ func (b *builder) largestGap(sd stripData, toY func(float64) float32) (label, bo
 	for _, y := range []float32{y0, y1} {
 		b.line(gapInk, 1.5, Point{x - 3, y}, Point{x + 3, y})
 	}
-	b.boxes = append(b.boxes, box{rect{x - 3, min(y0, y1) - 1, x + 3, max(y0, y1) + 1}, markerBox})
+	b.occupy(rect{x - 3, min(y0, y1) - 1, x + 3, max(y0, y1) + 1}, markerBox)
 	unit := sd.place.diagram.quantity.Info().Unit
 	s := fmt.Sprintf("largest gap %s at %s", b.format(unit, g.at.value), b.format(units.Position, g.at.x))
 	at := Point{x, max(y0, y1)}

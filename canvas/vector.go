@@ -57,18 +57,26 @@ func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, style paintSty
 		}
 		c.SetColor(col)
 	}
-	stroke := func(it Item, p vg.Path) {
+	dashes := func(it Item) []vg.Length {
+		if it.Dash {
+			return []vg.Length{vg.Length(5 * k), vg.Length(3 * k)}
+		}
+		return nil
+	}
+	// strokeStyle sets the item's line and says whether it has one.
+	strokeStyle := func(it Item) bool {
 		if it.Stroke.A == 0 || it.StrokeWidth <= 0 {
-			return
+			return false
 		}
 		setColour(it.Stroke)
 		c.SetLineWidth(vg.Length(float64(it.StrokeWidth) * k))
-		if it.Dash {
-			c.SetLineDash([]vg.Length{vg.Length(5 * k), vg.Length(3 * k)}, 0)
-		} else {
-			c.SetLineDash(nil, 0)
+		c.SetLineDash(dashes(it), 0)
+		return true
+	}
+	stroke := func(it Item, p vg.Path) {
+		if strokeStyle(it) {
+			c.Stroke(p)
 		}
-		c.Stroke(p)
 	}
 	fill := func(col color.NRGBA, p vg.Path) {
 		if col.A == 0 {
@@ -77,18 +85,57 @@ func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, style paintSty
 		setColour(col)
 		c.Fill(p)
 	}
+	grid, raster := rasterGridOf(c)
+	// dense returns the item's points on the canvas when a raster canvas
+	// must draw them in pieces (see denseCrossings).
+	dense := func(it Item, closed bool) ([]vg.Point, bool) {
+		if !raster || len(it.Points) <= denseCrossings {
+			return nil, false
+		}
+		pts := make([]vg.Point, len(it.Points))
+		for i, q := range it.Points {
+			pts[i] = pt(q)
+		}
+		return pts, grid.dense(pts, closed)
+	}
+	strokePieces := func(it Item, pts []vg.Point) {
+		if !strokeStyle(it) {
+			return
+		}
+		dash := dashes(it)
+		grid.strokePieces(pts, dash, func(p vg.Path, offset vg.Length) {
+			if dash != nil {
+				c.SetLineDash(dash, offset)
+			}
+			c.Stroke(p)
+		})
+	}
 	for _, it := range s.Items {
 		switch it.Kind {
 		case Polyline:
-			if len(it.Points) > 1 {
-				stroke(it, path(it.Points, false))
+			if len(it.Points) < 2 {
+				continue
 			}
+			if pts, ok := dense(it, false); ok {
+				strokePieces(it, pts)
+				continue
+			}
+			stroke(it, path(it.Points, false))
 		case Polygon:
-			if len(it.Points) > 2 {
-				p := path(it.Points, true)
-				fill(it.Fill, p)
-				stroke(it, p)
+			if len(it.Points) < 3 {
+				continue
 			}
+			if pts, ok := dense(it, true); ok {
+				if it.Fill.A != 0 {
+					setColour(it.Fill)
+					grid.fillSlabs(pts, c.Fill)
+				}
+				strokePieces(it, append(pts, pts[0]))
+				continue
+			}
+			p := path(it.Points, true)
+			fill(it.Fill, p)
+			stroke(it, p)
 		case Circle:
 			var p vg.Path
 			ctr := pt(it.Center)

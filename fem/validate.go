@@ -1,8 +1,10 @@
 package fem
 
 import (
+	"cmp"
 	"fmt"
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 )
@@ -395,14 +397,12 @@ var dofUnits = [3]string{"m", "m", "rad"}
 var springUnits = [3]string{"N/m", "N/m", "N·m/rad"}
 
 func (v *validator) supports(sups []Support, lengthKnown bool) {
+	earlier := firstEarlierAtSamePoint(sups, v.tol)
 	for i, s := range sups {
 		it := Item{Kind: SupportItem, Index: i}
 		if v.position(Place{Item: it, Property: PositionProperty}, "its position", s.X, lengthKnown) {
-			for j := 0; j < i; j++ {
-				if isFinite(sups[j].X) && math.Abs(sups[j].X-s.X) <= v.tol {
-					v.add(Place{Item: it, Property: PositionProperty}, fmt.Sprintf("supports %d and %d are both at x = %s: keep one support per point and choose a kind that restrains all the motions you need", j+1, i+1, fmtMetres(s.X)))
-					break
-				}
+			if j := earlier[i]; j >= 0 {
+				v.add(Place{Item: it, Property: PositionProperty}, fmt.Sprintf("supports %d and %d are both at x = %s: keep one support per point and choose a kind that restrains all the motions you need", j+1, i+1, fmtMetres(s.X)))
 			}
 		}
 		if s.Kind < Fixed || s.Kind > Spring {
@@ -437,6 +437,41 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 			}
 		}
 	}
+}
+
+// firstEarlierAtSamePoint returns for each support the lowest index of an
+// earlier support within tol of it, or −1, both at finite places. The
+// supports are sorted by place, so the ones within tol of a support are
+// next to it: the work grows with their number, not with all pairs.
+func firstEarlierAtSamePoint(sups []Support, tol float64) []int {
+	earlier := make([]int, len(sups))
+	order := make([]int, 0, len(sups))
+	for i, s := range sups {
+		earlier[i] = -1
+		if isFinite(s.X) {
+			order = append(order, i)
+		}
+	}
+	if math.IsNaN(tol) {
+		return earlier // no two places compare within it
+	}
+	slices.SortFunc(order, func(a, b int) int { return cmp.Or(cmp.Compare(sups[a].X, sups[b].X), a-b) })
+	lo := 0
+	for _, i := range order {
+		x := sups[i].X
+		for x-sups[order[lo]].X > tol {
+			lo++
+		}
+		for _, j := range order[lo:] {
+			if sups[j].X-x > tol {
+				break
+			}
+			if j < i && (earlier[i] < 0 || j < earlier[i]) {
+				earlier[i] = j
+			}
+		}
+	}
+	return earlier
 }
 
 // shearDeformation checks what a Timoshenko segment needs: a shear area

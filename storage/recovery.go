@@ -63,7 +63,7 @@ func WriteRecovery(dir string, p *Project, source string) error {
 	if err := os.MkdirAll(dir, 0o700); err != nil {
 		return fmt.Errorf("cannot autosave: cannot create the folder %s: %w", dir, err)
 	}
-	return replaceFile(RecoveryPath(dir), out.Bytes(), false)
+	return replaceData(RecoveryPath(dir), out.Bytes(), false)
 }
 
 // FindRecovery returns the autosave in dir, or nil if there is none. An

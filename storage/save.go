@@ -1,6 +1,7 @@
 package storage
 
 import (
+	"bufio"
 	"errors"
 	"fmt"
 	"hash/fnv"
@@ -51,7 +52,23 @@ func Save(path string, p *Project) error {
 	if len(data) > MaxFileSize {
 		return &SaveError{Problems: []Problem{oversize(len(data))}}
 	}
-	return replaceFile(path, data, true)
+	return replaceData(path, data, true)
+}
+
+// WriteFile puts at path what write writes, the way Save puts a project
+// there but keeping no backup: the bytes go through a buffer to a temporary
+// file in the same folder, so a product of any size is never held in
+// memory, and that file is renamed over path only once write has returned
+// without error, so a failure at any step leaves the previous file, if
+// any, as it was and no other file behind.
+func WriteFile(path string, write func(io.Writer) error) error {
+	return replaceFile(path, func(w io.Writer) error {
+		buf := bufio.NewWriterSize(w, 1<<20)
+		if err := write(buf); err != nil {
+			return err
+		}
+		return buf.Flush()
+	}, false)
 }
 
 // BackupPath is where Save keeps the previous version of the file at path
@@ -65,9 +82,15 @@ var writeData = func(w io.Writer, data []byte) error {
 	return err
 }
 
-// replaceFile puts data at path atomically, keeping the old file as a backup
-// when asked.
-func replaceFile(path string, data []byte, backup bool) (err error) {
+// replaceData puts data at path atomically, keeping the old file as a
+// backup when asked.
+func replaceData(path string, data []byte, backup bool) error {
+	return replaceFile(path, func(w io.Writer) error { return writeData(w, data) }, backup)
+}
+
+// replaceFile puts what write writes at path atomically, keeping the old
+// file as a backup when asked.
+func replaceFile(path string, write func(io.Writer) error, backup bool) (err error) {
 	target, err := followLinks(path)
 	if err != nil {
 		return fmt.Errorf("cannot save %s: %w; the previous file is unchanged", path, err)
@@ -96,7 +119,7 @@ func replaceFile(path string, data []byte, backup bool) (err error) {
 			os.Remove(tmpName)
 		}
 	}()
-	if err := writeData(tmp, data); err != nil {
+	if err := write(tmp); err != nil {
 		return fail("writing failed", err)
 	}
 	if info, statErr := os.Stat(target); statErr == nil {
@@ -183,7 +206,7 @@ func keepBackup(path string) error {
 	if err != nil {
 		return err
 	}
-	return replaceFile(bak, old, false)
+	return replaceData(bak, old, false)
 }
 
 // Temporary files are named ".NAME.HOST-PID-RANDOM.tmp": the file they will

@@ -1,12 +1,10 @@
 package main
 
 import (
-	"bufio"
 	"context"
 	"flag"
 	"fmt"
 	"io"
-	"os"
 	"path/filepath"
 	"strings"
 
@@ -105,35 +103,19 @@ func set(fs *flag.FlagSet, name string) bool {
 	return found
 }
 
-// writeExport streams what write writes to a file beside path and renames
-// it to path once complete, so a failed export leaves no file and an old
-// one in place; it returns the number of bytes written. The product goes
-// straight to the file: a large results table is never held in memory.
+// writeExport streams what write writes to path through storage.WriteFile:
+// a temporary file beside path, renamed to path once complete, so a failed
+// export leaves no file and an old one in place, and a large results table
+// is never held in memory. It returns the number of bytes written.
 func writeExport(path string, write func(io.Writer) error) (int64, error) {
-	tmp, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".*")
-	if err != nil {
-		return 0, fmt.Errorf("cannot write %s: %w", path, err)
-	}
-	buf := bufio.NewWriterSize(tmp, 1<<20)
-	counted := &countingWriter{w: buf}
-	err = write(counted)
-	if err == nil {
-		err = buf.Flush()
-	}
-	if err == nil {
-		err = tmp.Chmod(0o644) // as os.WriteFile would create it
-	}
-	if cerr := tmp.Close(); err == nil {
-		err = cerr
-	}
-	if err == nil {
-		err = os.Rename(tmp.Name(), path)
-	}
-	if err != nil {
-		os.Remove(tmp.Name())
-		return 0, err
-	}
-	return counted.n, nil
+	var n int64
+	err := storage.WriteFile(path, func(w io.Writer) error {
+		counted := &countingWriter{w: w}
+		err := write(counted)
+		n = counted.n
+		return err
+	})
+	return n, err
 }
 
 // countingWriter counts the bytes written through it.

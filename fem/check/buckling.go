@@ -1,8 +1,10 @@
 package check
 
 import (
+	"cmp"
 	"fmt"
 	"math"
+	"slices"
 
 	"stave/fem"
 	"stave/fem/units"
@@ -73,23 +75,75 @@ func EulerLoad(flexuralRigidity, factor, length float64) float64 {
 // endConditionAt combines the supports at x into one end condition.
 func endConditionAt(m *fem.Model, x float64) EndCondition {
 	tol := 1e-9 * m.Length()
-	deflection, rotation, spring := false, false, false
+	var r restraints
 	for _, s := range m.Supports {
 		if math.Abs(s.X-x) > tol {
-			continue
+			continue // (a place that is not a number is taken as everywhere)
 		}
-		deflection = deflection || s.Kind.Restrains(fem.Transverse)
-		rotation = rotation || s.Kind.Restrains(fem.Rotation)
-		spring = spring || s.Elastic(fem.Transverse) || s.Elastic(fem.Rotation)
+		r.add(s, 1)
 	}
+	return r.condition()
+}
+
+// endConditions is endConditionAt(m, s.X) for every support s, in the
+// order of m.Supports, found in one sweep over the supports sorted by
+// position rather than one scan of all supports per support.
+func endConditions(m *fem.Model) []EndCondition {
+	out := make([]EndCondition, len(m.Supports))
+	if slices.ContainsFunc(m.Supports, func(s fem.Support) bool { return math.IsNaN(s.X) || math.IsInf(s.X, 0) }) {
+		// Such a place does not sort, and endConditionAt takes a support
+		// there to be at every x: ask it.
+		for i, s := range m.Supports {
+			out[i] = endConditionAt(m, s.X)
+		}
+		return out
+	}
+	order := make([]int, len(m.Supports))
+	for i := range order {
+		order[i] = i
+	}
+	slices.SortFunc(order, func(a, b int) int { return cmp.Compare(m.Supports[a].X, m.Supports[b].X) })
+	tol := 1e-9 * m.Length()
+	var r restraints // of the supports order[lo:hi], those within tol of the current one
+	lo, hi := 0, 0
+	for _, i := range order {
+		x := m.Supports[i].X
+		for ; hi < len(order) && m.Supports[order[hi]].X-x <= tol; hi++ {
+			r.add(m.Supports[order[hi]], 1)
+		}
+		for ; x-m.Supports[order[lo]].X > tol; lo++ {
+			r.add(m.Supports[order[lo]], -1)
+		}
+		out[i] = r.condition()
+	}
+	return out
+}
+
+// restraints counts the supports that restrain deflection, rotation, and
+// either by a spring.
+type restraints struct{ deflection, rotation, spring int }
+
+func (r *restraints) add(s fem.Support, n int) {
+	if s.Kind.Restrains(fem.Transverse) {
+		r.deflection += n
+	}
+	if s.Kind.Restrains(fem.Rotation) {
+		r.rotation += n
+	}
+	if s.Elastic(fem.Transverse) || s.Elastic(fem.Rotation) {
+		r.spring += n
+	}
+}
+
+func (r restraints) condition() EndCondition {
 	switch {
-	case deflection && rotation:
+	case r.deflection > 0 && r.rotation > 0:
 		return Fixed
-	case spring:
+	case r.spring > 0:
 		return Elastic
-	case deflection:
+	case r.deflection > 0:
 		return Pinned
-	case rotation:
+	case r.rotation > 0:
 		return Guided
 	}
 	return Free

@@ -147,11 +147,12 @@ func facts(m *fem.Model) (memberFacts, bool) {
 		return f, false // the tables are for Euler–Bernoulli beams without thermal bending
 	}
 	f.length, f.elastic, f.area, f.second = m.Length(), seg.Material.Elastic, seg.Section.Area, seg.Section.SecondMoment
-	for _, s := range m.Supports {
+	conditions := endConditions(m)
+	for i, s := range m.Supports {
 		if s.Stiffness != [3]float64{} || s.Settlement != [3]float64{} {
 			return f, false
 		}
-		if c := endConditionAt(m, s.X); c != Free {
+		if c := conditions[i]; c != Free {
 			f.beamSupports = append(f.beamSupports, placed{s.X, c})
 		}
 		if s.Kind.Restrains(fem.Axial) {

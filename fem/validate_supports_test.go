@@ -1,0 +1,112 @@
+package fem
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"math/rand/v2"
+	"slices"
+	"strings"
+	"testing"
+)
+
+// duplicateSupports returns the "both at x" sentences Validate gives m, in order.
+func duplicateSupports(t *testing.T, m *Model) []string {
+	t.Helper()
+	var ve *ValidationError
+	if err := m.Validate(); err != nil && !errors.As(err, &ve) {
+		t.Fatalf("got %v, want a *ValidationError", err)
+	}
+	var out []string
+	if ve != nil {
+		for _, p := range ve.Problems {
+			if strings.Contains(p.Message, " are both at x = ") {
+				out = append(out, p.Message[:strings.Index(p.Message, ":")])
+			}
+		}
+	}
+	return out
+}
+
+// Two supports at one point are named by the later one's number and the
+// lowest number of an earlier one within the merge tolerance (1e-12·L) of
+// it, whatever the order in which the supports are listed.
+func TestValidateDuplicateSupportsNameThePair(t *testing.T) {
+	tol := mergeTolerance * 3 // the model is 3 m long
+	nan := math.NaN()
+	tests := []struct {
+		name   string
+		places []float64
+		want   []string
+	}{
+		{"none", []float64{0, 1, 3}, nil},
+		{"two", []float64{0, 3, 0}, []string{"supports 1 and 3 are both at x = 0.0 m"}},
+		{"three at one point", []float64{2, 0, 2, 3, 2},
+			[]string{"supports 1 and 3 are both at x = 2.0 m", "supports 1 and 5 are both at x = 2.0 m"}},
+		{"listed right to left", []float64{3, 2, 1, 0, 1, 2},
+			[]string{"supports 3 and 5 are both at x = 1.0 m", "supports 2 and 6 are both at x = 2.0 m"}},
+		// Within the tolerance is not transitive: the third is near the
+		// second only.
+		{"a chain within the tolerance", []float64{1, 1 + 0.6*tol, 1 + 1.2*tol},
+			[]string{"supports 1 and 2 are both at x = 1.0 m", "supports 2 and 3 are both at x = 1.0 m"}},
+		{"the nearer one listed later", []float64{1 + 1.2*tol, 1, 1 + 0.6*tol},
+			[]string{"supports 1 and 3 are both at x = 1.0 m"}},
+		// The first lies outside the member and is refused for that; the
+		// second, inside, still names it.
+		{"past the end, then inside", []float64{0, 3 + 1.5*tol, 3 + 0.7*tol},
+			[]string{"supports 2 and 3 are both at x = 3.0 m"}},
+		{"a place that is not a number", []float64{0, nan, 3, nan, 0}, []string{"supports 1 and 5 are both at x = 0.0 m"}},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			m := validModel()
+			m.Supports = nil
+			for _, x := range tc.places {
+				m.Supports = append(m.Supports, Support{X: x, Kind: Roller})
+			}
+			m.Supports[0].Kind = Pinned
+			if got := duplicateSupports(t, m); !slices.Equal(got, tc.want) {
+				t.Errorf("got %q, want %q", got, tc.want)
+			}
+		})
+	}
+}
+
+// On many supports crowded at a few places, the pairs named are those the
+// rule "each support with the lowest-numbered earlier one within the
+// tolerance" gives when every pair is compared.
+func TestValidateDuplicateSupportsAsEveryPair(t *testing.T) {
+	r := rand.New(rand.NewPCG(17, 3))
+	const L = 3.0
+	tol := mergeTolerance * L
+	for round := range 20 {
+		m := validModel()
+		m.Supports = nil
+		for range 200 {
+			x := float64(r.IntN(40)) * L / 39
+			x = min(L, max(0, x+float64(r.IntN(5)-2)*0.6*tol))
+			m.Supports = append(m.Supports, Support{X: x, Kind: Roller})
+		}
+		var want []string
+		for i, s := range m.Supports {
+			for j := range i {
+				if math.Abs(m.Supports[j].X-s.X) <= tol {
+					want = append(want, fmt.Sprintf("supports %d and %d are both at x = %s", j+1, i+1, fmtMetres(s.X)))
+					break
+				}
+			}
+		}
+		if got := duplicateSupports(t, m); !slices.Equal(got, want) {
+			t.Fatalf("round %d: got %d sentences, want %d; first difference at %d", round, len(got), len(want), firstDifference(got, want))
+		}
+	}
+}
+
+func firstDifference(a, b []string) int {
+	for i := range min(len(a), len(b)) {
+		if a[i] != b[i] {
+			return i
+		}
+	}
+	return min(len(a), len(b))
+}
