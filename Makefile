@@ -51,14 +51,9 @@ unit:
 race:
 	$(GO) test -count=1 -race ./fem/... ./app/...
 
-# Short runs of every fuzz target; a crasher is written under the package's testdata/fuzz.
+# Short runs of every fuzz target (.ci/fuzz.sh); a crasher is written under the package's testdata/fuzz.
 fuzz:
-	@for pkg in $$(grep -rl --include='*_test.go' '^func Fuzz' . | xargs -n1 dirname | sort -u); do \
-	  for target in $$(grep -h '^func Fuzz' $$pkg/*_test.go | sed 's/^func \(Fuzz[A-Za-z0-9_]*\).*/\1/'); do \
-	    echo "fuzz $$pkg $$target for $(FUZZ_TIME)"; \
-	    $(GO) test -run '^$$' -fuzz "^$$target\$$" -fuzztime $(FUZZ_TIME) $$pkg || exit 1; \
-	  done; \
-	done
+	GO=$(GO) ./.ci/fuzz.sh $(FUZZ_TIME)
 
 smoke: build
 	STAVE_BINARY=$(BIN) ./.ci/smoke.sh
