@@ -472,15 +472,11 @@ func (w *Window) offerRecovery() {
 	)
 }
 
-// writeFile creates path and fills it with write.
+// writeFile fills path with write through storage.WriteFile: a failure at
+// any step leaves the previous file, if any, as it was and no half file.
 func writeFile(path string, write func(io.Writer) error) error {
-	f, err := os.Create(path)
-	if err != nil {
-		return fmt.Errorf("cannot export: %w", err)
-	}
-	if err := write(f); err != nil {
-		f.Close()
+	if err := storage.WriteFile(path, write); err != nil {
 		return fmt.Errorf("cannot export to %s: %w", path, err)
 	}
-	return f.Close()
+	return nil
 }

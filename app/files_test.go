@@ -3,6 +3,8 @@ package app
 import (
 	"bytes"
 	"context"
+	"errors"
+	"io"
 	"os"
 	"path/filepath"
 	"reflect"
@@ -355,5 +357,38 @@ func TestDemoTitle(t *testing.T) {
 	w.newProject()
 	if got := w.win.Title(); !strings.Contains(got, "untitled") {
 		t.Errorf("title of a new member is %q", got)
+	}
+}
+
+// An export that fails half way leaves the previous file as it was, and
+// no file where there was none.
+func TestWriteFileFailingHalfWay(t *testing.T) {
+	dir := t.TempDir()
+	fail := func(w io.Writer) error {
+		if _, err := w.Write([]byte("half a picture")); err != nil {
+			return err
+		}
+		return errors.New("the drawing failed")
+	}
+	fresh := filepath.Join(dir, "new.png")
+	if err := writeFile(fresh, fail); err == nil {
+		t.Fatal("a failed export reported no error")
+	}
+	if _, err := os.Stat(fresh); !os.IsNotExist(err) {
+		t.Errorf("a failed export left %s behind (%v)", fresh, err)
+	}
+	old := filepath.Join(dir, "old.png")
+	if err := os.WriteFile(old, []byte("the previous picture"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if err := writeFile(old, fail); err == nil {
+		t.Fatal("a failed export reported no error")
+	}
+	if b, err := os.ReadFile(old); err != nil || string(b) != "the previous picture" {
+		t.Errorf("the previous file reads %q (%v) after a failed export", b, err)
+	}
+	entries, _ := os.ReadDir(dir)
+	if len(entries) != 1 {
+		t.Errorf("%d files in the folder after the failed exports, want only the previous one", len(entries))
 	}
 }
