@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"testing"
 )
 
@@ -119,6 +120,25 @@ func TestTieOnAxialSupports(t *testing.T) {
 	}
 	if f := s.At(1, Right); f.Deflection != 0 || f.BendingMoment != 0 || f.AxialForce <= 0 {
 		t.Errorf("fields at x = 1 m: %+v, want tension and no bending", f)
+	}
+	// Its summary shows no bending quantities: only the axial extremes (the
+	// combined stress is the axial stress), no shear or moment at supports,
+	// no reaction across.
+	sum := Summarize(s, e)
+	var got []Quantity
+	for _, x := range sum.Extremes {
+		got = append(got, x.Quantity)
+	}
+	if want := []Quantity{QAxialDisplacement, QAxialForce, QAxialStress, QCombinedStress}; !slices.Equal(got, want) {
+		t.Errorf("the summary lists %v, want %v", got, want)
+	}
+	for _, r := range sum.Reactions {
+		if r.Holds[Transverse] || r.Holds[Rotation] || !r.Holds[Axial] {
+			t.Errorf("support %d reads as holding %v, want the axial motion alone", r.Support, r.Holds)
+		}
+	}
+	if len(sum.Supports) != 0 {
+		t.Errorf("%d supports' shear and moment listed on a bar", len(sum.Supports))
 	}
 	m.AxialOnly = true
 	m.PointLoads = append(m.PointLoads, PointLoad{X: 1, Transverse: -1e3})

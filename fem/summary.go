@@ -400,6 +400,9 @@ func (z *Summarizer) Summary() Summary {
 		withExact(sum.Extremes, exactExtremes(ex), L)
 	}
 	sum.Supports = supportActions(s, ex)
+	if s.AxialOnly {
+		sum.axialOnly()
+	}
 	applied := s.Equilibrium.Applied
 	sum.FEEquilibrium = equilibriumSummary(s.Equilibrium)
 	sum.Equilibrium = sum.FEEquilibrium
@@ -423,6 +426,26 @@ func (z *Summarizer) Summary() Summary {
 		Note:      s.Mesh.Note,
 	}
 	return sum
+}
+
+// axialOnly leaves out of sum what a member solved as a bar alone does
+// not have: the extremes of its bending quantities, the shear force and
+// bending moment at its supports, and the supports' reactions across it
+// and in rotation, which read as not held. The combined stress stays: it
+// is the axial stress then.
+func (sum *Summary) axialOnly() {
+	kept := sum.Extremes[:0]
+	for _, e := range sum.Extremes {
+		switch e.Quantity {
+		case QAxialDisplacement, QAxialForce, QAxialStress, QCombinedStress:
+			kept = append(kept, e)
+		}
+	}
+	sum.Extremes = kept
+	sum.Supports = nil
+	for i := range sum.Reactions {
+		sum.Reactions[i].Holds[Transverse], sum.Reactions[i].Holds[Rotation] = false, false
+	}
 }
 
 // supportActions are the shear force and bending moment on both sides of
