@@ -22,6 +22,9 @@ type readout struct {
 	at    *widget.Label
 	table *widget.Table
 	rows  [][readoutColumns]string
+	// least are the columns' widths for plain numbers; widths those set
+	// now, wider where a row's text needs it (the envelope's ranges).
+	least, widths [readoutColumns]float32
 }
 
 // Columns of the readout table.
@@ -67,7 +70,9 @@ func newReadout() *readout {
 	number := fyne.MeasureText("-8.888e-88", size, fyne.TextStyle{}).Width
 	widths[columnFE], widths[columnExact] = number, number
 	for i, w := range widths {
-		r.table.SetColumnWidth(i, w+12)
+		r.least[i] = w + 12
+		r.widths[i] = r.least[i]
+		r.table.SetColumnWidth(i, r.widths[i])
 	}
 	return r
 }
@@ -108,7 +113,25 @@ func (r *readout) fill(u units.System, value func(fem.Quantity) (exact, fe strin
 		row[columnExact], row[columnFE] = value(q)
 		r.rows = append(r.rows, row)
 	}
+	r.fitColumns()
 	r.table.Refresh()
+}
+
+// fitColumns widens the value columns to their longest text (an
+// envelope's range with the combinations that give it), so no cell runs
+// into the next; the table scrolls sideways when they pass the panel.
+func (r *readout) fitColumns() {
+	size := readoutTextSize()
+	for _, c := range []int{columnExact, columnFE} {
+		w := r.least[c]
+		for _, row := range r.rows {
+			w = max(w, fyne.MeasureText(row[c], size, fyne.TextStyle{}).Width+12)
+		}
+		if w != r.widths[c] {
+			r.widths[c] = w
+			r.table.SetColumnWidth(c, w)
+		}
+	}
 }
 
 // shortNumber is units.FormatNumber with the exponent's zeros dropped
