@@ -405,6 +405,9 @@ func TrainsJSON(m *fem.Model, rs []TrainResult, stations bool) []TrainJSON {
 	for _, r := range rs {
 		from, to := r.Train.Run(m.Length())
 		j := TrainJSON{Train: r.Label, Direction: r.Train.Direction.String(), From: from, To: to}
+		if r.Train.Name != "" {
+			j.Train = r.Train.Name // the name as the file gives it; "train N" for one without
+		}
 		if r.Err != nil {
 			j.Error = r.Err.Error()
 			out = append(out, j)
