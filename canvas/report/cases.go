@@ -12,6 +12,7 @@ import (
 	"stave/fem/analysis"
 	"stave/fem/moving"
 	"stave/fem/units"
+	"stave/storage"
 )
 
 // CombinedCaution goes with every result combined from load cases: the
@@ -89,6 +90,17 @@ type GoverningJSON struct {
 	// the spans loaded in the worst arrangement (counted from 1); the
 	// others are unloaded.
 	LoadedSpans []LoadedSpansJSON `json:"loaded_spans,omitempty"`
+	// Train is where the combination's moving load train stands when
+	// the extreme comes from a combination that takes one.
+	Train *TrainPlacementJSON `json:"train,omitempty"`
+}
+
+// TrainPlacementJSON is a train at one position: its name, the x of its
+// front (m) and the way it faces.
+type TrainPlacementJSON struct {
+	Name      string  `json:"name"`
+	Front     float64 `json:"front"`
+	Direction string  `json:"direction"`
 }
 
 // LoadedSpansJSON are the spans of one case loaded in an arrangement.
@@ -204,6 +216,9 @@ func governingJSON(m *fem.Model, c *analysis.Cases, g fem.Governing) GoverningJS
 // when its combination places nothing by span.
 func (g GoverningJSON) Arrangement() string {
 	var parts []string
+	if t := g.Train; t != nil {
+		parts = append(parts, fmt.Sprintf("train %q, front at %s m %s", t.Name, units.FormatNumber(t.Front), t.Direction))
+	}
 	for _, l := range g.LoadedSpans {
 		if len(l.Spans) == 0 {
 			parts = append(parts, l.Case+" on no span")
@@ -235,13 +250,23 @@ func FactorsText(c CombinationJSON) string {
 	return strings.Join(parts, " + ")
 }
 
-// AddTrains adds to r's combinations the moving load trains each takes in
-// model m (by the trains' names), which CasesResults, reading the analysis
-// alone, leaves out. A nil r stays nil.
-func (r *CasesJSON) AddTrains(m *fem.Model, trains []moving.Train) {
-	if r == nil {
-		return
+// WithTrains adds to r what CasesResults, reading the analysis alone,
+// leaves out of a project with moving load trains: each combination's
+// trains among its factors, and the combinations that take a train in the
+// envelope (addTrainExtremes). It returns the trains' results (nil without
+// trains). A nil r stays nil.
+func (r *CasesJSON) WithTrains(p *storage.Project) []TrainResult {
+	trains := solveTrains(p)
+	if r != nil && p != nil {
+		r.addTrainFactors(&p.Model, p.Trains)
+		r.addTrainExtremes(&p.Model, trains)
 	}
+	return trains
+}
+
+// addTrainFactors adds to r's combinations the moving load trains each
+// takes in model m, by the trains' names.
+func (r *CasesJSON) addTrainFactors(m *fem.Model, trains []moving.Train) {
 	for i := range r.Combinations {
 		c := &r.Combinations[i]
 		for _, cb := range m.Combinations {
@@ -251,6 +276,78 @@ func (r *CasesJSON) AddTrains(m *fem.Model, trains []moving.Train) {
 			for _, tf := range cb.Trains {
 				if tf.Train >= 0 && tf.Train < len(trains) {
 					c.Factors = append(c.Factors, FactorJSON{Train: trains[tf.Train].Name, Factor: tf.Factor})
+				}
+			}
+		}
+	}
+}
+
+// addTrainExtremes takes into r's envelope the combinations that take a
+// moving load train (trains, with their combinations worked out): where
+// such a combination, at its train's worst position, goes beyond the
+// envelope of the combinations' cases, it governs, with the train's
+// position. Where no combination stresses the member along it, the
+// combined stress is the bending stress on the worse fibre and takes the
+// train too; otherwise it, the foundations and the drawing's envelope keep
+// the cases alone.
+func (r *CasesJSON) addTrainExtremes(m *fem.Model, trains []TrainResult) {
+	if r == nil {
+		return
+	}
+	envelope := func(q fem.Quantity) *QuantityEnvelope {
+		for i := range r.Envelope.Quantities {
+			if r.Envelope.Quantities[i].Quantity == q {
+				return &r.Envelope.Quantities[i]
+			}
+		}
+		return nil
+	}
+	axial := envelope(fem.QAxialStress)
+	unstressedAlong := axial != nil && axial.Max.Value == 0 && axial.Min.Value == 0
+	for _, tr := range trains {
+		for _, c := range tr.Combinations {
+			governing := func(e TrainExtreme) GoverningJSON {
+				return GoverningJSON{Value: e.Value, X: e.X, Combination: c.Combination,
+					Train: &TrainPlacementJSON{Name: tr.Train.Name, Front: e.Front, Direction: e.Direction}}
+			}
+			for _, w := range c.Worst {
+				if q := envelope(w.Quantity); q != nil {
+					if w.Largest.Value > q.Max.Value {
+						q.Max = governing(w.Largest)
+					}
+					if w.Smallest.Value < q.Min.Value {
+						q.Min = governing(w.Smallest)
+					}
+				}
+				if q := envelope(fem.QCombinedStress); q != nil && unstressedAlong && w.Quantity == fem.QBendingStress {
+					worse := w.Largest
+					if -w.Smallest.Value > worse.Value {
+						worse = w.Smallest
+						worse.Value = -worse.Value
+					}
+					if worse.Value > q.Max.Value {
+						q.Max = governing(worse)
+					}
+					if worse.Value > -q.Min.Value {
+						q.Min = governing(worse)
+						q.Min.Value = -worse.Value
+					}
+				}
+			}
+			for _, re := range c.Envelope.Reactions {
+				name := componentNames[re.Motion]
+				for i := range r.Envelope.Reactions {
+					env := &r.Envelope.Reactions[i]
+					if env.Support != re.Support+1 {
+						continue
+					}
+					x := m.Supports[re.Support].X
+					if g, ok := env.Max[name]; ok && re.Max > g.Value {
+						env.Max[name] = governing(TrainExtreme{Value: re.Max, X: x, Front: re.MaxAt.Front, Direction: re.MaxAt.Direction.String()})
+					}
+					if g, ok := env.Min[name]; ok && re.Min < g.Value {
+						env.Min[name] = governing(TrainExtreme{Value: re.Min, X: x, Front: re.MinAt.Front, Direction: re.MinAt.Direction.String()})
+					}
 				}
 			}
 		}
@@ -302,7 +399,7 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 		fmt.Fprintf(tw, "  %s\t%s\t%s\n", c.Name, kind, FactorsText(c))
 	}
 	if r.takesTrains() {
-		fmt.Fprintln(tw, "  A combination's train is not in the envelope below, which takes its cases alone: its moving loads are under the trains further on.")
+		fmt.Fprintln(tw, "  A combination that takes a train enters the envelope below with its train at the train's worst position (every span loaded); the trains further on give it in full.")
 	}
 	tw.Flush()
 	fmt.Fprintf(tw, "\nEnvelope over every combination%s\n", spanWords(r.Envelope.Spans))

@@ -398,12 +398,10 @@ func WriteSolveJSON(w io.Writer, path string, src Source) error {
 		if err != nil {
 			return err
 		}
-		if src.Project != nil {
-			cases.AddTrains(&src.Project.Model, src.Project.Trains)
-		}
+		trains := cases.WithTrains(src.Project)
 		doc.CasesJSON = cases
-		if src.Project != nil {
-			doc.Trains = TrainsJSON(&src.Project.Model, solveTrains(src.Project), true)
+		if trains != nil {
+			doc.Trains = TrainsJSON(&src.Project.Model, trains, true)
 		}
 	}
 	return WriteJSON(w, doc)

@@ -1,10 +1,12 @@
 package report
 
 import (
+	"context"
 	"math"
 	"testing"
 
 	"stave/fem"
+	"stave/fem/analysis"
 	"stave/fem/moving"
 	"stave/storage"
 )
@@ -72,6 +74,35 @@ func TestTrainInACombination(t *testing.T) {
 				t.Errorf("%s: %.10g at x = %g with the front at %g %s; solved there: %.10g | %.10g", w.Quantity, ex.Value, ex.X, ex.Front, ex.Direction, want[0], want[1])
 			}
 		}
+	}
+	// The load-case envelope takes the combination with its train where it
+	// goes beyond the cases' envelope, naming the train's position, and the
+	// findings say the checks leave the train out.
+	src, err := Analyse(context.Background(), p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	cases, err := CasesResults(src.Analysis)
+	if err != nil {
+		t.Fatal(err)
+	}
+	cases.WithTrains(p)
+	for _, q := range cases.Envelope.Quantities {
+		if q.Quantity != fem.QBendingMoment {
+			continue
+		}
+		for _, w := range c.Worst {
+			if w.Quantity == fem.QBendingMoment && (q.Min.Value != w.Smallest.Value || q.Min.Train == nil || q.Min.Combination != "with trolley" || q.Min.Train.Front != w.Smallest.Front) {
+				t.Errorf("envelope's smallest moment %+v, want the combination with its train, %g at front %g", q.Min, w.Smallest.Value, w.Smallest.Front)
+			}
+		}
+	}
+	flagged := false
+	for _, f := range src.Findings {
+		flagged = flagged || f.Code == analysis.CodeTrainNotChecked
+	}
+	if !flagged {
+		t.Error("no finding says the checks leave the train out")
 	}
 	// The trolley alone: the combination's moment over the middle support
 	// is worse than 1.35 times the case's own −wL²/8 = −20 kN·m (two equal

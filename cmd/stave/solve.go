@@ -69,7 +69,7 @@ func solveCommand(args []string, stdout io.Writer) error {
 		if err != nil {
 			return modelError{fmt.Errorf("%s: %w", path, err)}
 		}
-		cases.AddTrains(&p.Model, p.Trains)
+		cases.WithTrains(p)
 		if cases != nil && r.Show.Kind == analysis.ShowEnvelope {
 			report.WriteCasesText(stdout, path, cases, sys)
 			report.WriteTrainsText(stdout, src)

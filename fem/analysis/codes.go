@@ -25,6 +25,7 @@ const (
 	CodeDesignWithinLimit Code = "design_within_limit"
 	CodeVerified          Code = "verified"
 	CodePending           Code = "pending"
+	CodeTrainNotChecked   Code = "train_not_checked"
 )
 
 // CodeInfo describes one code: the severity its findings have, whether it
@@ -54,6 +55,7 @@ var Codes = []CodeInfo{
 	{CodeDesignWithinLimit, OK, false, "a design check is within its limit (a finding about the member, not an approval)"},
 	{CodeVerified, OK, false, "a verification of the answer (equilibrium, error against the exact solution, handbook) agrees"},
 	{CodePending, Pending, false, "the exact solution and the checks follow (the window, while the drawing moves)"},
+	{CodeTrainNotChecked, Caution, false, "a combination takes a moving load train, which the design checks and the drawn envelope leave out: the train's part is in the trains' results"},
 }
 
 // info is the entry of Codes for c.

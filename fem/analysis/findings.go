@@ -114,6 +114,12 @@ func (a *Analysis) Findings() []Finding {
 	for _, msg := range a.Solution.Warnings {
 		out = append(out, finding(CodeCondition, "solver", msg))
 	}
+	for _, cb := range a.Model.Combinations {
+		for _, tf := range cb.Trains {
+			out = append(out, finding(CodeTrainNotChecked, fmt.Sprintf("combination %q with moving load train %d", cb.Name, tf.Train+1),
+				fmt.Sprintf("Combination %q takes moving load train %d with a factor of %s. The design checks and the drawn envelope take the combination's cases alone; the combination with the train at its worst positions is in the trains' results (stave solve, stave influence --envelope). Check those values against your limits.", cb.Name, tf.Train+1, units.FormatNumber(tf.Factor))))
+		}
+	}
 	if msg := a.Exact.Warning(); msg != "" {
 		out = append(out, finding(CodeCondition, "exact solution", msg))
 	}
