@@ -67,6 +67,31 @@ func sizeLimit(coefficient float64, power float64, allowed float64) float64 {
 	return math.Pow(allowed/math.Abs(coefficient), 1/power)
 }
 
+// Over a foundation every node of the mesh enters the factorized
+// equations, whose condition grows as the fourth power of the elements
+// there: about 4/(β·h)⁴ across the member, β = (k/4EI)^¼, and 4/(α·h)²
+// along it, α = (kₐ/EA)^½. The automatic mesh keeps β·h and α·h at least
+// these, so that round-off (condition·ε) stays near 1e-5 at worst; the
+// finite element shear force, constant in each element while the bed's
+// k·w changes it, is then within about β·h = 0.4 % of its peak.
+const (
+	foundationBetaStep  = 0.004
+	foundationAlphaStep = 1e-5
+)
+
+// shortestOnFoundation is the shortest element the automatic mesh puts on
+// d's stretch of foundation (0 off a foundation).
+func (d *elementData) shortestOnFoundation() float64 {
+	h := 0.0
+	if d.modulus > 0 && d.flexuralRigidity > 0 {
+		h = foundationBetaStep / math.Sqrt(math.Sqrt(d.modulus/(4*d.flexuralRigidity)))
+	}
+	if d.axialModulus > 0 && d.axialRigidity > 0 {
+		h = max(h, foundationAlphaStep/math.Sqrt(d.axialModulus/d.axialRigidity))
+	}
+	return h
+}
+
 // automaticCounts are the default mesh's element counts per stretch of
 // p.keys, and a note on how they were found. With load cases, every case
 // must meet the rule on the mesh.
@@ -93,6 +118,7 @@ func (p *Member) automaticCounts() ([]int, string) {
 			// Half the accuracy: the bounds are estimates.
 			tol := MeshAccuracy / 2
 			h := min(bar.elementLength(&d, &scale, tol), beam.elementLength(&d, &scale, tol))
+			h = max(h, d.shortestOnFoundation())
 			n[j] = max(n[j], 1)
 			if h < d.length {
 				n[j] = max(n[j], int(min(math.Ceil(d.length/h), maxAutomaticElements)))
