@@ -43,7 +43,7 @@ func (s *exactStretch) fields(t float64, f *Fields) {
 	}
 	f.AxialStress = f.AxialForce / s.area
 	f.BendingStress = f.BendingMoment * s.fibre / s.secondMoment
-	f.CombinedStress = extremeFibreStress(f.AxialStress, f.BendingStress)
+	f.CombinedStress = combinedStress(f.AxialStress, f.BendingStress)
 }
 
 // closedInterval is the part of an exact interval that reads a stretch in

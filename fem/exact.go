@@ -634,15 +634,6 @@ func (e *Exact) At(x float64, side Side) Fields {
 	return f
 }
 
-// extremeFibreStress is the extreme-fibre stress N/A ± M·c/I of larger magnitude.
-func extremeFibreStress(axial, bending float64) float64 {
-	bottom, top := axial+bending, axial-bending
-	if math.Abs(top) > math.Abs(bottom) {
-		return top
-	}
-	return bottom
-}
-
 // locate finds the stretch and local coordinate t for x seen from side.
 func (e *Exact) locate(x float64, side Side) (int, float64) {
 	last := len(e.stretches) - 1

@@ -262,7 +262,7 @@ func exactExtremes(e *Exact) *extremes {
 
 // withExact makes the exact extremes ex the headline values of list and
 // measures the finite element ones against them.
-func withExact(list []Extreme, ex *extremes, L float64) {
+func withExact(list []Extreme, ex *extremes, L float64, floor [2]float64) {
 	exact := ex.list()
 	var largest [quantityCount]float64
 	for i, e := range exact {
@@ -272,10 +272,39 @@ func withExact(list []Extreme, ex *extremes, L float64) {
 		e, x := &list[i], &exact[i]
 		e.Max, e.XMax, e.Min, e.XMin = x.FEMax, x.FEXMax, x.FEMin, x.FEXMin
 		off := math.Max(math.Abs(e.FEMax-e.Max), math.Abs(e.FEMin-e.Min))
-		if scale := fieldScale(e.Quantity, &largest, L); scale > 0 {
+		if scale := fieldScale(e.Quantity, &largest, L, floor); scale > 0 {
 			e.Accuracy = off / scale
 		}
 	}
+}
+
+// forceFloor is the size the internal forces of s's model are at least
+// measured against, N, and its stresses, Pa: the loads applied and the
+// supports' actions (each, not their sum), and the imposed deformations
+// fully restrained (Model.ImposedScales), a moment counted as a force by
+// dividing by the length; the stress, the force on the smallest area or
+// the moment on the smallest section modulus.
+func forceFloor(s *Solution) [2]float64 {
+	m := &s.Model
+	L := m.Length()
+	force, moment := m.ImposedScales()
+	a := s.Equilibrium.Applied
+	force = max(force, math.Abs(a[Axial]), math.Abs(a[Transverse]))
+	moment = max(moment, math.Abs(a[Rotation]))
+	for _, r := range s.Reactions {
+		force = max(force, math.Abs(r.Force[Axial]), math.Abs(r.Force[Transverse]))
+		moment = max(moment, math.Abs(r.Force[Rotation]))
+	}
+	if L > 0 {
+		force = max(force, moment/L)
+	}
+	stress := 0.0
+	for _, sg := range m.Segments {
+		if sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
+			stress = max(stress, force/sg.Section.Area, force*L*sg.Section.FibreDistance/sg.Section.SecondMoment)
+		}
+	}
+	return [2]float64{force, stress}
 }
 
 // fieldScale is the size quantity q is measured against: its largest
@@ -284,8 +313,12 @@ func withExact(list []Extreme, ex *extremes, L float64) {
 // in a beam, a moment in a heated bar — and then the size of that kind:
 // displacements max(|u|, |w|, |θ|·L), forces max(|N|, |V|, |M|/L) (L the
 // member's length, m), stresses the largest of the three. So a field that
-// is zero to round-off is not measured against its own round-off.
-func fieldScale(q Quantity, largest *[quantityCount]float64, L float64) float64 {
+// is zero to round-off is not measured against its own round-off. Forces
+// and stresses are of a kind at least floor (forceFloor): where the loads
+// and imposed deformations go wholly into free motion (a determinate beam
+// warmer below) every internal force is round-off, and is measured against
+// the size the loads would give, not against itself.
+func fieldScale(q Quantity, largest *[quantityCount]float64, L float64, floor [2]float64) float64 {
 	own := largest[q]
 	var kind float64 // the size of q's kind, in q's unit
 	switch q {
@@ -295,17 +328,49 @@ func fieldScale(q Quantity, largest *[quantityCount]float64, L float64) float64 
 			kind /= L
 		}
 	case QAxialForce, QShearForce, QBendingMoment:
-		kind = max(largest[QAxialForce], largest[QShearForce], largest[QBendingMoment]/L)
+		kind = max(largest[QAxialForce], largest[QShearForce], largest[QBendingMoment]/L, floor[0])
 		if q == QBendingMoment {
 			kind *= L
 		}
 	default:
-		kind = max(largest[QAxialStress], largest[QBendingStress], largest[QCombinedStress])
+		kind = max(largest[QAxialStress], largest[QBendingStress], largest[QCombinedStress], floor[1])
 	}
 	if own > negligible*kind {
 		return own
 	}
 	return kind
+}
+
+// ImposedScales are the force and moment that the imposed deformations of
+// m (temperature change and difference, settlements) would make if fully
+// restrained: EA·α·ΔT, EI·α·ΔT/h, and the end actions of a fixed-ended
+// member of the whole length under each settlement (beam tables, from
+// memory). Where a determinate member takes them freely the reactions are
+// round-off, and these, not that round-off, are the scale to judge their
+// balance by.
+func (m *Model) ImposedScales() (force, moment float64) {
+	L := m.Length()
+	if L <= 0 {
+		return 0, 0
+	}
+	dT := math.Abs(m.TemperatureChange)
+	for _, c := range m.Cases {
+		dT = math.Max(dT, math.Abs(c.TemperatureChange))
+	}
+	ea, ei := 0.0, 0.0
+	for _, sg := range m.Segments {
+		a, e := sg.Material.ThermalExpansion, sg.Material.Elastic
+		ea, ei = math.Max(ea, e*sg.Section.Area), math.Max(ei, e*sg.Section.SecondMoment)
+		force = math.Max(force, e*sg.Section.Area*math.Abs(a)*dT)
+		if h := sg.Section.depth(); h > 0 {
+			moment = math.Max(moment, e*sg.Section.SecondMoment*math.Abs(a*sg.TemperatureDifference)/h)
+		}
+	}
+	for _, sp := range m.Supports {
+		force = math.Max(force, math.Max(ea*math.Abs(sp.Settlement[Axial])/L, 12*ei*math.Abs(sp.Settlement[Transverse])/(L*L*L)))
+		moment = math.Max(moment, math.Max(6*ei*math.Abs(sp.Settlement[Transverse])/(L*L), 4*ei*math.Abs(sp.Settlement[Rotation])/L))
+	}
+	return force, moment
 }
 
 // Summarizer gathers a Summary in a walk over a solution (a Visitor): the
@@ -397,7 +462,7 @@ func (z *Summarizer) Summary() Summary {
 	sum.Extremes = z.extremes.list()
 	L := s.Model.Length()
 	if ex != nil {
-		withExact(sum.Extremes, exactExtremes(ex), L)
+		withExact(sum.Extremes, exactExtremes(ex), L, forceFloor(s))
 	}
 	sum.Supports = supportActions(s, ex)
 	if s.AxialOnly {
