@@ -333,9 +333,23 @@ func influenceOf(p *storage.Project) (*fem.Member, *moving.Influence, error) {
 	if err != nil {
 		return nil, nil, err
 	}
+	if mesh := member.Mesh(); mesh.Automatic && len(mesh.Elements) < influenceElements {
+		// The automatic mesh is sized for the member's own loads (one
+		// element a stretch when it has none); a unit load standing on the
+		// nearest node needs nodes along the whole member.
+		m := p.Model.Clone()
+		m.Mesh.Elements = influenceElements
+		if member, err = fem.Prepare(&m); err != nil {
+			return nil, nil, err
+		}
+	}
 	in, err := moving.New(member)
 	return member, in, err
 }
+
+// influenceElements is the fewest elements the finite element influence
+// line and a train's default step are taken on, when the mesh is Stave's.
+const influenceElements = 100
 
 // TrainJSON is one train's results as JSON, in SI units; positions are the
 // x of the train's front (its first axle) and the way it faces.

@@ -17,6 +17,7 @@ type influenceJSON struct {
 			S     float64  `json:"s"`
 			Exact float64  `json:"exact"`
 			FE    *float64 `json:"finite_elements"`
+			FEAt  *float64 `json:"finite_elements_load_at"`
 		} `json:"samples"`
 		Largest struct{ S, Value float64 } `json:"largest"`
 	} `json:"influence_line"`
@@ -167,6 +168,31 @@ func TestSolveJSONCarriesTrains(t *testing.T) {
 			if w.Quantity != v.Quantity || w.Largest.Value != v.Largest.Value || w.Smallest.Value != v.Smallest.Value {
 				t.Errorf("%s: solve has %s %g..%g, influence %s %g..%g", tr.Train, w.Quantity, w.Smallest.Value, w.Largest.Value, v.Quantity, v.Smallest.Value, v.Largest.Value)
 			}
+		}
+	}
+}
+
+// A member with no loads of its own and the mesh left to Stave: the
+// automatic mesh would be one element a stretch, and the finite element
+// line would read every load at an end. The influence line takes at least
+// 100 elements, so each sample's load stands within L/100 of it, and the
+// finite element value there is the exact one: the midspan moment's triangle, peak L/4 (statics; e.g. Hibbeler,
+// Structural Analysis, ch. 6, from memory).
+func TestInfluenceWithoutLoadsOfItsOwn(t *testing.T) {
+	const L = 4.0
+	path := variant(t, t.TempDir(), "bare", func(m map[string]any) {
+		delete(m, "loads")
+		m["mesh"] = map[string]any{"elements": 0}
+	})
+	got := influenceRun(t, path, "--quantity", "M", "--at", "2", "--points", "8")
+	for _, s := range got.Line.Samples {
+		at := s.S
+		if s.FEAt != nil {
+			at = *s.FEAt // the load on the nearest node
+		}
+		want := math.Min(at, L-at) / 2
+		if s.FE == nil || math.Abs(*s.FE-want) > 1e-9*L || math.Abs(at-s.S) > L/100 {
+			t.Errorf("finite element line at s = %g: %v with the load at %g, want %g within L/100 of s", s.S, s.FE, at, want)
 		}
 	}
 }

@@ -80,16 +80,44 @@ func New(p *fem.Member) (*Influence, error) {
 	}
 	m := p.Model()
 	in := &Influence{model: m}
-	if m.AxialOnly {
+	across, along := unsupported(m)
+	switch {
+	case m.AxialOnly:
 		in.bendingErr = errors.New("the member is axial-only (a tie or strut): it carries no load across and has no bending influence lines")
-	} else {
+	case across != "":
+		in.bendingErr = fmt.Errorf("influence lines across the member and moving load trains are not available for a member with %s: the member's closed-form influence lines leave it out; solve the train at chosen positions as loads instead", across)
+	default:
 		in.bending, in.bendingErr = newSweeps(m, bendingProblem)
 	}
-	in.axial, in.axialErr = newSweeps(m, axialProblem)
+	if along != "" {
+		in.axialErr = fmt.Errorf("influence lines along the member are not available for a member with %s: the member's closed-form influence lines leave it out", along)
+	} else {
+		in.axial, in.axialErr = newSweeps(m, axialProblem)
+	}
 	if in.bending == nil && in.axial == nil {
 		return nil, in.bendingErr
 	}
 	return in, nil
+}
+
+// unsupported says what of m the closed-form influence lines (the transfer
+// sweeps of green.go) do not take, across and along the member: an elastic
+// foundation, shear deformation; "" when they take it all.
+func unsupported(m *fem.Model) (across, along string) {
+	for _, f := range m.Foundations {
+		if f.Modulus > 0 {
+			across = "an elastic foundation across it"
+		}
+		if f.AxialModulus > 0 {
+			along = "an elastic foundation along it"
+		}
+	}
+	for _, sg := range m.Segments {
+		if sg.ShearDeformation && across == "" {
+			across = "shear deformation"
+		}
+	}
+	return across, along
 }
 
 // Model is the member's model, shared: do not change it.
