@@ -441,6 +441,11 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 		}
 		tw.Flush()
 	}
+}
+
+// WriteCasesCaution writes the caution on results and on combined ones,
+// which ends the text of a model with load cases.
+func WriteCasesCaution(w io.Writer) {
 	fmt.Fprintln(w, "\nCaution:", fem.Caution)
 	fmt.Fprintln(w, CombinedCaution)
 }

@@ -6,6 +6,8 @@ import (
 	"slices"
 	"strings"
 	"testing"
+
+	"stave/canvas/report"
 )
 
 // casesResult is the part of `stave solve --json` a model with load cases
@@ -117,7 +119,14 @@ func TestSolveJSONTwoSpanCases(t *testing.T) {
 // --show NAME prints one case or combination; an unknown name is misuse,
 // with the names to choose from.
 func TestSolveShow(t *testing.T) {
-	code, out, stderr := runStave(t, "solve", "--show", "first span", "../../testdata/two_span_cases.json")
+	// The envelope's text, the default, ends with the cautions, after the
+	// warnings.
+	code, out, stderr := runStave(t, "solve", "../../testdata/two_span_cases.json")
+	warnings, caution := strings.Index(out, "Warnings"), strings.LastIndex(out, "Caution: ")
+	if code != 0 || warnings < 0 || caution < warnings || !strings.HasSuffix(strings.TrimSpace(out), report.CombinedCaution) {
+		t.Errorf("the envelope's text does not end with the cautions after the warnings (exit %d, stderr %s):\n%s", code, stderr, out)
+	}
+	code, out, stderr = runStave(t, "solve", "--show", "first span", "../../testdata/two_span_cases.json")
 	if code != 0 || !strings.Contains(out, "Showing load case first span") || !strings.Contains(out, "Reactions") {
 		t.Errorf("exit %d, out %s, stderr %s", code, out, stderr)
 	}

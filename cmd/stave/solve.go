@@ -75,6 +75,7 @@ func solveCommand(args []string, stdout io.Writer) error {
 			report.WriteTrainsText(stdout, src)
 			fmt.Fprintln(stdout)
 			report.WriteWarningsText(stdout, src.Findings)
+			report.WriteCasesCaution(stdout)
 			break
 		}
 		if cases != nil {
