@@ -13,6 +13,7 @@ import (
 
 	"stave/fem"
 	"stave/fem/analysis"
+	"stave/fem/moving"
 	"stave/storage"
 )
 
@@ -387,15 +388,15 @@ func (w *Window) setShow(s analysis.Show) {
 }
 
 // showCombinations edits the combinations in a table: a row per
-// combination with its name and kind, a column per case holding its
-// factor (empty: the case is not taken).
+// combination with its name and kind, a column per case and per named
+// moving load train holding its factor (empty: it is not taken).
 func (w *Window) showCombinations() {
 	m := w.canonicalModel()
 	if len(m.Cases) == 0 {
 		w.setStatus("the model has no load cases to combine: Add a case first")
 		return
 	}
-	t := newCombinationTable(m)
+	t := newCombinationTable(m, w.project.Trains)
 	var d dialog.Dialog
 	message := widget.NewLabel("")
 	message.Wrapping = fyne.TextWrapWord
@@ -427,33 +428,44 @@ func (w *Window) showCombinations() {
 // templateNote marks every template.
 const templateNote = "typical; use the factors your local code gives"
 
-// combinationTable is the grid of the combinations dialog.
+// combinationTable is the grid of the combinations dialog: a column per
+// case and per named moving load train (a file names a train in a
+// combination by its name).
 type combinationTable struct {
-	cases []string
-	grid  *fyne.Container
-	rows  []combinationRow
+	cases  []string
+	trains []int // the project's trains that have a name, by index
+	grid   *fyne.Container
+	rows   []combinationRow
 }
 
 type combinationRow struct {
 	name    *widget.Entry
 	kind    *widget.Select
 	label   string
-	factors []*widget.Entry
-	trains  []fem.TrainFactor // kept as the file has them: the table edits the cases' factors
+	factors []*widget.Entry // per case
+	trains  []*widget.Entry // per named train (combinationTable.trains)
 }
 
 var kindNames = []string{fem.Strength.String(), fem.Serviceability.String(), fem.OtherCombination.String()}
 
-func newCombinationTable(m fem.Model) *combinationTable {
+func newCombinationTable(m fem.Model, trains []moving.Train) *combinationTable {
 	t := &combinationTable{}
 	for _, c := range m.Cases {
 		t.cases = append(t.cases, c.Name)
 	}
-	t.grid = container.NewGridWithColumns(len(t.cases) + 2)
+	for i, tr := range trains {
+		if tr.Name != "" {
+			t.trains = append(t.trains, i)
+		}
+	}
+	t.grid = container.NewGridWithColumns(len(t.cases) + len(t.trains) + 2)
 	t.grid.Add(heading("combination"))
 	t.grid.Add(heading("kind"))
 	for _, n := range t.cases {
 		t.grid.Add(heading(n))
+	}
+	for _, i := range t.trains {
+		t.grid.Add(heading("train " + trains[i].Name))
 	}
 	for _, cb := range m.Combinations {
 		t.addRow(cb)
@@ -463,7 +475,7 @@ func newCombinationTable(m fem.Model) *combinationTable {
 
 // addRow adds a row showing cb.
 func (t *combinationTable) addRow(cb fem.Combination) {
-	r := combinationRow{name: widget.NewEntry(), kind: widget.NewSelect(kindNames, nil), label: cb.Label, trains: cb.Trains}
+	r := combinationRow{name: widget.NewEntry(), kind: widget.NewSelect(kindNames, nil), label: cb.Label}
 	r.name.SetText(cb.Name)
 	r.kind.SetSelected(cb.Kind.String())
 	t.grid.Add(r.name)
@@ -476,6 +488,16 @@ func (t *combinationTable) addRow(cb fem.Combination) {
 			}
 		}
 		r.factors = append(r.factors, e)
+		t.grid.Add(e)
+	}
+	for _, i := range t.trains {
+		e := widget.NewEntry()
+		for _, f := range cb.Trains {
+			if f.Train == i {
+				e.SetText(strconv.FormatFloat(f.Factor, 'g', -1, 64))
+			}
+		}
+		r.trains = append(r.trains, e)
 		t.grid.Add(e)
 	}
 	t.rows = append(t.rows, r)
@@ -504,18 +526,36 @@ func (t *combinationTable) addTemplates() {
 func (t *combinationTable) combinations() ([]fem.Combination, error) {
 	var out []fem.Combination
 	for i, r := range t.rows {
-		cb := fem.Combination{Name: strings.TrimSpace(r.name.Text), Label: r.label, Trains: r.trains}
+		cb := fem.Combination{Name: strings.TrimSpace(r.name.Text), Label: r.label}
 		cb.Kind, _ = fem.ParseCombinationKind(r.kind.Selected)
-		for k, e := range r.factors {
+		// factor reads one cell: ok false for an empty one.
+		factor := func(e *widget.Entry, column string) (f float64, ok bool, err error) {
 			s := strings.TrimSpace(e.Text)
 			if s == "" {
-				continue
+				return 0, false, nil
 			}
-			f, err := strconv.ParseFloat(s, 64)
+			if f, err = strconv.ParseFloat(s, 64); err != nil {
+				return 0, false, fmt.Errorf("row %d, %s: %q is not a factor; enter a number such as 1.35, or leave the cell empty", i+1, column, s)
+			}
+			return f, true, nil
+		}
+		for k, e := range r.factors {
+			f, ok, err := factor(e, t.cases[k])
 			if err != nil {
-				return nil, fmt.Errorf("row %d, %s: %q is not a factor; enter a number such as 1.35, or leave the cell empty", i+1, t.cases[k], s)
+				return nil, err
 			}
-			cb.Factors = append(cb.Factors, fem.CaseFactor{Case: k, Factor: f})
+			if ok {
+				cb.Factors = append(cb.Factors, fem.CaseFactor{Case: k, Factor: f})
+			}
+		}
+		for j, e := range r.trains {
+			f, ok, err := factor(e, fmt.Sprintf("train %d", t.trains[j]+1))
+			if err != nil {
+				return nil, err
+			}
+			if ok {
+				cb.Trains = append(cb.Trains, fem.TrainFactor{Train: t.trains[j], Factor: f})
+			}
 		}
 		if cb.Name == "" && len(cb.Factors) == 0 {
 			continue

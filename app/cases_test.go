@@ -12,6 +12,7 @@ import (
 	"stave/canvas"
 	"stave/fem"
 	"stave/fem/analysis"
+	"stave/fem/moving"
 	"stave/storage"
 )
 
@@ -59,7 +60,7 @@ func TestCasesInTheWindow(t *testing.T) {
 		t.Errorf("%d point loads drawn, want the edited case's one", loads)
 	}
 	// Combinations from the table, one cell refused with its place.
-	tab := newCombinationTable(w.Model())
+	tab := newCombinationTable(w.Model(), nil)
 	tab.addTemplates()
 	tab.rows[0].factors[1].SetText("1,5")
 	if _, err := tab.combinations(); err == nil || !strings.Contains(err.Error(), "row 1, imposed") {
@@ -149,5 +150,33 @@ func TestCasesPanel(t *testing.T) {
 	c.showSelect.SetSelected("combination: first")
 	if w.show != (analysis.Show{Kind: analysis.ShowCombination, Index: 1}) {
 		t.Errorf("show %+v", w.show)
+	}
+}
+
+// A named moving load train has its column in the combinations table: a
+// factor typed there puts the train in the combination, and a combination
+// that takes one shows its factor; an unnamed train, which a file cannot
+// name, has none.
+func TestCombinationTableTrains(t *testing.T) {
+	m := fem.Model{Cases: []fem.LoadCase{{Name: "permanent"}, {Name: "imposed"}},
+		Combinations: []fem.Combination{{Name: "with hoist", Kind: fem.Strength,
+			Factors: []fem.CaseFactor{{Case: 0, Factor: 1.35}}, Trains: []fem.TrainFactor{{Train: 1, Factor: 1.5}}}}}
+	trains := []moving.Train{{Axles: []moving.Axle{{Load: 1}}}, {Name: "hoist", Axles: []moving.Axle{{Load: 1}}}}
+	tab := newCombinationTable(m, trains)
+	if len(tab.trains) != 1 || tab.trains[0] != 1 || len(tab.rows[0].trains) != 1 || tab.rows[0].trains[0].Text != "1.5" {
+		t.Fatalf("train columns %v, the row's %v; want the named train's with 1.5", tab.trains, tab.rows[0].trains)
+	}
+	tab.rows[0].trains[0].SetText("x")
+	if _, err := tab.combinations(); err == nil || !strings.Contains(err.Error(), "row 1, train 2") {
+		t.Errorf("a bad train factor: %v", err)
+	}
+	tab.rows[0].trains[0].SetText("1.2")
+	combos, err := tab.combinations()
+	if err != nil || len(combos) != 1 || !reflect.DeepEqual(combos[0].Trains, []fem.TrainFactor{{Train: 1, Factor: 1.2}}) {
+		t.Errorf("combinations %+v, %v; want the hoist at 1.2", combos, err)
+	}
+	tab.rows[0].trains[0].SetText("")
+	if combos, err = tab.combinations(); err != nil || len(combos[0].Trains) != 0 {
+		t.Errorf("an empty cell keeps the train: %+v, %v", combos, err)
 	}
 }
