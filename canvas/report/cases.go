@@ -12,7 +12,6 @@ import (
 	"stave/fem/analysis"
 	"stave/fem/moving"
 	"stave/fem/units"
-	"stave/storage"
 )
 
 // CombinedCaution goes with every result combined from load cases: the
@@ -254,9 +253,9 @@ func FactorsText(c CombinationJSON) string {
 // leaves out of a project with moving load trains: each combination's
 // trains among its factors, and the combinations that take a train in the
 // envelope (addTrainExtremes). It returns the trains' results (nil without
-// trains). A nil r stays nil.
-func (r *CasesJSON) WithTrains(p *storage.Project) []TrainResult {
-	trains := solveTrains(p)
+// trains), src's own when it has them. A nil r stays nil.
+func (r *CasesJSON) WithTrains(src Source) []TrainResult {
+	trains, p := src.trains(), src.Project
 	if r != nil && p != nil {
 		r.addTrainFactors(&p.Model, p.Trains)
 		r.addTrainExtremes(&p.Model, trains)

@@ -119,6 +119,18 @@ type Source struct {
 	// Dimensions draws the dimension lines and the scale bar, which the
 	// window can switch off; the project's overlays choose everything else.
 	Dimensions bool
+	// Trains are the project's moving load trains worked out
+	// (CasesJSON.WithTrains) when a caller already has them; nil to work
+	// them out where they are written.
+	Trains []TrainResult
+}
+
+// trains are src's trains worked out: Trains, or solveTrains.
+func (src Source) trains() []TrainResult {
+	if src.Trains != nil {
+		return src.Trains
+	}
+	return solveTrains(src.Project)
 }
 
 // UnitSystem is the display unit system a project names, SI when it names none.

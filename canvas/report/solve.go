@@ -398,7 +398,7 @@ func WriteSolveJSON(w io.Writer, path string, src Source) error {
 		if err != nil {
 			return err
 		}
-		trains := cases.WithTrains(src.Project)
+		trains := cases.WithTrains(src)
 		doc.CasesJSON = cases
 		if trains != nil {
 			doc.Trains = TrainsJSON(&src.Project.Model, trains, true)
@@ -425,7 +425,7 @@ func WriteSolveText(w io.Writer, path string, src Source) {
 // does on the member, alone and in the combinations that take it; nothing
 // for a project without trains.
 func WriteTrainsText(w io.Writer, src Source) {
-	if trains := solveTrains(src.Project); trains != nil {
+	if trains := src.trains(); trains != nil {
 		fmt.Fprintln(w, "\nMoving load trains, each alone on the member (its own loads and cases not added, except in the combinations that take it; stave influence draws them)")
 		writeTrainsText(w, trains, &src.Project.Model, nil, src.Units)
 	}

@@ -86,7 +86,7 @@ func TestTrainInACombination(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	cases.WithTrains(p)
+	cases.WithTrains(src)
 	for _, q := range cases.Envelope.Quantities {
 		if q.Quantity != fem.QBendingMoment {
 			continue

@@ -69,7 +69,7 @@ func solveCommand(args []string, stdout io.Writer) error {
 		if err != nil {
 			return modelError{fmt.Errorf("%s: %w", path, err)}
 		}
-		cases.WithTrains(p)
+		src.Trains = cases.WithTrains(src) // worked out once for every text below
 		if cases != nil && r.Show.Kind == analysis.ShowEnvelope {
 			report.WriteCasesText(stdout, path, cases, sys)
 			report.WriteTrainsText(stdout, src)
