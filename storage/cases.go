@@ -137,11 +137,7 @@ func (r *reader) cases(p *Project, top *fields) {
 			name := ff.text("case", true, `"case" with the name of a load case, or "train" with the name of a moving load train`)
 			cf := fem.CaseFactor{Case: caseNamed(p.Model.Cases, name), Factor: ff.number("factor", "(no unit)", true)}
 			if cf.Case < 0 && ff.holds("case", stringNode) {
-				list := "none: add the case under \"cases\""
-				if len(names) > 0 {
-					list = "one of " + strings.Join(names, ", ")
-				}
-				r.add(join(ff.path, "case"), "%q is not a load case of this file; use %s", cut(name), list)
+				r.add(join(ff.path, "case"), "%q is not a load case of this file; use %s", cut(name), oneOf(names, `none: add the case under "cases"`))
 			}
 			ff.finish()
 			cb.Factors = append(cb.Factors, cf)
@@ -172,14 +168,19 @@ func (r *reader) trainFactor(p *Project, ff *fields) (fem.TrainFactor, bool) {
 				names = append(names, strconv.Quote(cut(t.Name)))
 			}
 		}
-		list := "none: add it under \"trains\" with a name"
-		if len(names) > 0 {
-			list = "one of " + strings.Join(names, ", ")
-		}
-		r.add(join(ff.path, "train"), "%q is not a train of this file; use %s", cut(name), list)
+		r.add(join(ff.path, "train"), "%q is not a train of this file; use %s", cut(name), oneOf(names, `none: add it under "trains" with a name`))
 	}
 	ff.finish()
 	return tf, tf.Train >= 0
+}
+
+// oneOf lists the names a reference may take ("one of "a", "b""), or says
+// none when there are none.
+func oneOf(names []string, none string) string {
+	if len(names) == 0 {
+		return none
+	}
+	return "one of " + strings.Join(names, ", ")
 }
 
 // caseNamed is the index of the case named name, or −1.
