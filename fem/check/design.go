@@ -153,24 +153,26 @@ func deflectionChecks(p *Probe, o Options) []Result {
 
 // chordLine is the deflection of the supports of a part in one solution:
 // the straight line through both supports of a span, or the support's own
-// deflection for an overhang.
+// deflection for an overhang (dw = 0). A walk reads it twice per element,
+// so it holds what at needs and nothing to choose between.
 type chordLine struct {
-	part   stretch
-	wa, wb float64 // deflection at part.a and part.b, m
+	a, span float64 // the part's start and length, m
+	w0, dw  float64 // the deflection at a, and its change over the span, m
 }
 
 func newChord(src fem.Field, st stretch) chordLine {
-	return chordLine{part: st, wa: src.At(st.a, fem.Right).Deflection, wb: src.At(st.b, fem.Left).Deflection}
+	wa, wb := src.At(st.a, fem.Right).Deflection, src.At(st.b, fem.Left).Deflection
+	c := chordLine{a: st.a, span: st.b - st.a, w0: wa, dw: wb - wa}
+	switch {
+	case !st.support[0]:
+		c.w0, c.dw = wb, 0
+	case !st.support[1]:
+		c.dw = 0
+	}
+	return c
 }
 
 // at is the chord's deflection at x.
-func (c chordLine) at(x float64) float64 {
-	st := c.part
-	switch {
-	case !st.support[0]:
-		return c.wb
-	case !st.support[1]:
-		return c.wa
-	}
-	return c.wa + (c.wb-c.wa)*(x-st.a)/(st.b-st.a)
+func (c *chordLine) at(x float64) float64 {
+	return c.w0 + c.dw*(x-c.a)/c.span
 }
