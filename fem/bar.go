@@ -115,8 +115,8 @@ func (d *elementData) barLoads(order ElementOrder) localVector {
 // forces), by pieces where the load breaks.
 func (d *elementData) linearBarLoadsOn(x0, x1 float64) [2]float64 {
 	h := x1 - x0
-	if d.smooth(x0, x1) {
-		p0, p1 := d.axialAt(x0, Right), d.axialAt(x1, Left)
+	if pc, ok := d.pieceOver(x0, x1); ok {
+		p0, p1 := pc.at(x0, 0), pc.at(x1, 0)
 		return [2]float64{h * (2*p0 + p1) / 6, h * (p0 + 2*p1) / 6}
 	}
 	var f [2]float64

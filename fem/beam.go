@@ -201,8 +201,10 @@ func (d *elementData) hermiteLoadsOn(x0, x1 float64) localVector {
 		h = d.length // the element itself: its own length, not a difference
 	}
 	phi := d.phi(h)
-	if phi == 0 && d.smooth(x0, x1) {
-		return hermiteLoads(h, d.transverseAt(x0, Right), d.transverseAt(x1, Left))
+	if phi == 0 {
+		if pc, ok := d.pieceOver(x0, x1); ok {
+			return hermiteLoads(h, pc.at(x0, 1), pc.at(x1, 1))
+		}
 	}
 	var f localVector
 	d.pieces(x0, x1, func(pc loadPiece) {

@@ -44,11 +44,38 @@ func (d *elementData) pieces(x0, x1 float64, do func(loadPiece)) {
 	do(loadPiece{start: a, length: x1 - a, p0: pa, p1: d.axialAt(x1, Left), q0: qa, q1: d.transverseAt(x1, Left)})
 }
 
-// smooth reports whether d's line loads are linear on (x0, x1): no break lies
-// strictly inside.
-func (d *elementData) smooth(x0, x1 float64) bool {
-	i := sort.Search(len(d.breaks), func(i int) bool { return d.breaks[i].x > x0 })
-	return i == len(d.breaks) || d.breaks[i].x >= x1
+// linearPiece is the part of a stretch between neighbouring breaks (or its
+// ends), where both line loads are linear: axial and transverse intensity
+// va just right of a and vb just left of b, N/m.
+type linearPiece struct {
+	a, b   float64 // m
+	va, vb [2]float64
+}
+
+// at is line load k (0 axial, 1 transverse) of the piece at x, as loadAt
+// gives it there: each end's own value exactly at that end.
+func (p *linearPiece) at(x float64, k int) float64 {
+	return linearBetween(p.a, p.b, p.va[k], p.vb[k], x)
+}
+
+// pieceOver returns the piece of d's line loads holding [x0, x1], and false
+// when a break lies strictly inside (the loads are not linear there). The
+// refinement asks for the loads of two elements at every fine node: one
+// search for the piece, instead of one per end and per load.
+func (d *elementData) pieceOver(x0, x1 float64) (linearPiece, bool) {
+	j := sort.Search(len(d.breaks), func(i int) bool { return d.breaks[i].x > x0 })
+	if j < len(d.breaks) && d.breaks[j].x < x1 {
+		return linearPiece{}, false
+	}
+	p := linearPiece{a: d.start, b: d.start + d.length,
+		va: [2]float64{d.axialLoad[0], d.transverseLoad[0]}, vb: [2]float64{d.axialLoad[1], d.transverseLoad[1]}}
+	if j > 0 {
+		p.a, p.va = d.breaks[j-1].x, d.breaks[j-1].right
+	}
+	if j < len(d.breaks) {
+		p.b, p.vb = d.breaks[j].x, d.breaks[j].left
+	}
+	return p, true
 }
 
 // axialAt and transverseAt are the line loads of d at x, seen from side
