@@ -57,7 +57,9 @@ type builder struct {
 	boxes []box
 	// boxGrid finds the boxes near a place (see occupy).
 	boxGrid boxGrid
-	curves  [][]Point
+	// widths are the texts measured so far (see textWidth).
+	widths map[textKey]float32
+	curves [][]Point
 	// band bounds the labels placed while a band (the sketch, a strip) is
 	// drawn; zero for the whole scene.
 	band rect
@@ -318,7 +320,7 @@ func (b *builder) circle(c Point, r float32, fill, stroke color.NRGBA, width flo
 // fraction of the box (0 = left/top, 0.5 = centre, 1 = right/bottom). The box
 // is kept inside the scene width. It returns the box.
 func (b *builder) text(s string, x, y float32, size float32, ax, ay float32, c color.NRGBA, bold bool) rect {
-	w := textWidth(s, size, bold)
+	w := b.textWidth(s, size, bold)
 	h := TextHeight(size)
 	left := x - ax*w
 	left = max(2, min(b.v.Width-w-2, left))
