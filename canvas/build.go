@@ -57,6 +57,8 @@ type builder struct {
 	boxes []box
 	// boxGrid finds the boxes near a place (see occupy).
 	boxGrid boxGrid
+	// full are the cells around which a label found no place (see fullCell).
+	full map[[2]int32]fullCell
 	// widths are the texts measured so far (see textWidth).
 	widths map[textKey]float32
 	curves [][]Point

@@ -75,6 +75,23 @@ var ringSteps = []float32{10, 18, 28, 40, 56, 76, 100}
 
 const nearRings = 5
 
+// fullCell is a label size whose ring search, from a point in one cell of
+// gridCell pixels, found every spot taken, in the band then drawn.
+//
+// Where loads stand closer than their labels are wide, most of their
+// labels find no place, and each looked at 59 spots before giving up: the
+// work grew with the loads, not with the pixels. The rings sample the
+// space around a point no finer than gridCell pixels (8 px between the
+// nearest rings, more farther out), so a search from another point of the
+// same cell, for a label no smaller, would look at the same full places:
+// it is skipped, and the label tries only its own spots. So at most one
+// search fails per cell of the band and label size, however many loads
+// stand in it.
+type fullCell struct {
+	w, h float32
+	band rect
+}
+
 // ringDirections are the directions of a ring's spots, from the label's
 // point, as unit steps: above, below, right, left, then the diagonals.
 var ringDirections = [][2]float32{{0, -1}, {0, 1}, {1, 0}, {-1, 0}, {1, -1}, {-1, -1}, {1, 1}, {-1, 1}}
@@ -139,30 +156,41 @@ func (b *builder) place(l label) (rect, bool) {
 		dir := ringDirections[d]
 		return labelSpot{l.at.X + ringSteps[k]*dir[0], l.at.Y + ringSteps[k]*dir[1], (1 - dir[0]) / 2, (1 - dir[1]) / 2}
 	}
+	cell := [2]int32{int32(math.Floor(float64(l.at.X / gridCell))), int32(math.Floor(float64(l.at.Y / gridCell)))}
+	f, seen := b.full[cell]
+	full := seen && f.band == within && w >= f.w && h >= f.h
 	var near [nearRings * 8]try
-	for k := range nearRings {
-		for d := range ringDirections {
-			t := look(ring(k, d), true)
-			if t.free && !b.crossesCurve(t.r) {
-				return take(t)
+	if !full {
+		for k := range nearRings {
+			for d := range ringDirections {
+				t := look(ring(k, d), true)
+				if t.free && !b.crossesCurve(t.r) {
+					return take(t)
+				}
+				near[k*8+d] = t
 			}
-			near[k*8+d] = t
 		}
 	}
 	if r, ok := ownFree(); ok {
 		return r, true
 	}
-	for _, t := range near {
-		if t.free {
-			return take(t)
-		}
-	}
-	for k := nearRings; k < len(ringSteps); k++ {
-		for d := range ringDirections {
-			if t := look(ring(k, d), true); t.free {
+	if !full {
+		for _, t := range near {
+			if t.free {
 				return take(t)
 			}
 		}
+		for k := nearRings; k < len(ringSteps); k++ {
+			for d := range ringDirections {
+				if t := look(ring(k, d), true); t.free {
+					return take(t)
+				}
+			}
+		}
+		if b.full == nil {
+			b.full = map[[2]int32]fullCell{}
+		}
+		b.full[cell] = fullCell{w, h, within}
 	}
 	if l.compact != "" && len(l.lines) > 1 {
 		l.lines, l.compact = []string{l.compact}, ""
