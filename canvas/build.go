@@ -57,6 +57,10 @@ type builder struct {
 	boxes []box
 	// boxGrid finds the boxes near a place (see occupy).
 	boxGrid boxGrid
+	// crowd are the crowd labels waiting for the others (see placeCrowd),
+	// until crowdLast.
+	crowd     []label
+	crowdLast bool
 	// full are the cells around which a label found no place (see fullCell).
 	full map[[2]int32]fullCell
 	// widths are the texts measured so far (see textWidth).

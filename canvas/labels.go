@@ -57,6 +57,12 @@ type label struct {
 	plain bool
 	// compact is the label in one line, tried where lines find no place.
 	compact string
+	// crowd is set for labels that may come by the hundred, the forces':
+	// one that finds none of its own spots free waits until the labels
+	// that are fewer and more to the point are placed (see placeCrowd),
+	// and skips the ring search around a place where one of them found no
+	// room (see fullCell).
+	crowd bool
 }
 
 // labelSpot puts a label's box with the point (ax, ay) of it, in fractions
@@ -75,8 +81,9 @@ var ringSteps = []float32{10, 18, 28, 40, 56, 76, 100}
 
 const nearRings = 5
 
-// fullCell is a label size whose ring search, from a point in one cell of
-// gridCell pixels, found every spot taken, in the band then drawn.
+// fullCell is the size of a crowd label whose ring search, from a point in
+// one cell of gridCell pixels, found every spot taken, in the band then
+// drawn.
 //
 // Where loads stand closer than their labels are wide, most of their
 // labels find no place, and each looked at 59 spots before giving up: the
@@ -86,7 +93,8 @@ const nearRings = 5
 // same cell, for a label no smaller, would look at the same full places:
 // it is skipped, and the label tries only its own spots. So at most one
 // search fails per cell of the band and label size, however many loads
-// stand in it.
+// stand in it. Labels that are not of the crowd, fewer and more to the
+// point, always look.
 type fullCell struct {
 	w, h float32
 	band rect
@@ -141,6 +149,10 @@ func (b *builder) place(l label) (rect, bool) {
 		}
 		own = append(own, t)
 	}
+	if l.crowd && !b.crowdLast {
+		b.crowd = append(b.crowd, l)
+		return rect{}, false
+	}
 	ownFree := func() (rect, bool) {
 		for _, t := range own {
 			if t.free {
@@ -158,7 +170,7 @@ func (b *builder) place(l label) (rect, bool) {
 	}
 	cell := [2]int32{int32(math.Floor(float64(l.at.X / gridCell))), int32(math.Floor(float64(l.at.Y / gridCell)))}
 	f, seen := b.full[cell]
-	full := seen && f.band == within && w >= f.w && h >= f.h
+	full := l.crowd && seen && f.band == within && w >= f.w && h >= f.h
 	var near [nearRings * 8]try
 	if !full {
 		for k := range nearRings {
@@ -187,16 +199,30 @@ func (b *builder) place(l label) (rect, bool) {
 				}
 			}
 		}
-		if b.full == nil {
-			b.full = map[[2]int32]fullCell{}
+		if l.crowd {
+			if b.full == nil {
+				b.full = map[[2]int32]fullCell{}
+			}
+			b.full[cell] = fullCell{w, h, within}
 		}
-		b.full[cell] = fullCell{w, h, within}
 	}
 	if l.compact != "" && len(l.lines) > 1 {
 		l.lines, l.compact = []string{l.compact}, ""
 		return b.place(l)
 	}
 	return rect{}, false
+}
+
+// placeCrowd places the crowd labels that found none of their own spots
+// free, now that the other labels of the band are placed: where forces
+// stand closer than their labels are wide, their labels would otherwise
+// take every place a reaction's or a check's label could have.
+func (b *builder) placeCrowd() {
+	b.crowdLast = true
+	for _, l := range b.crowd {
+		b.place(l)
+	}
+	b.crowd, b.crowdLast = nil, false
 }
 
 // free reports whether r, with a little space around it, overlaps no box.
