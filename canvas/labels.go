@@ -60,8 +60,8 @@ type label struct {
 	// crowd is set for labels that may come by the hundred, the forces':
 	// one that finds none of its own spots free waits until the labels
 	// that are fewer and more to the point are placed (see placeCrowd),
-	// and skips the ring search around a place where one of them found no
-	// room (see fullCell).
+	// then looks on the near rings only, and not even there around a
+	// place where one of them found no room (see fullCell).
 	crowd bool
 }
 
@@ -86,15 +86,15 @@ const nearRings = 5
 // drawn.
 //
 // Where loads stand closer than their labels are wide, most of their
-// labels find no place, and each looked at 59 spots before giving up: the
-// work grew with the loads, not with the pixels. The rings sample the
-// space around a point no finer than gridCell pixels (8 px between the
-// nearest rings, more farther out), so a search from another point of the
-// same cell, for a label no smaller, would look at the same full places:
-// it is skipped, and the label tries only its own spots. So at most one
-// search fails per cell of the band and label size, however many loads
-// stand in it. Labels that are not of the crowd, fewer and more to the
-// point, always look.
+// labels find no place, and each looked at dozens of spots before giving
+// up: the work grew with the loads, not with the pixels. The rings sample
+// the space around a point no finer than gridCell pixels (8 px between
+// the nearest rings, more farther out), so a search from another point
+// of the same cell, for a label no smaller, would look at the same full
+// places: it is skipped, and the label tries only its own spots. So at
+// most one search fails per cell of the band and label size, however
+// many loads stand in it. Labels that are not of the crowd, fewer and
+// more to the point, always look.
 type fullCell struct {
 	w, h float32
 	band rect
@@ -192,7 +192,11 @@ func (b *builder) place(l label) (rect, bool) {
 				return take(t)
 			}
 		}
-		for k := nearRings; k < len(ringSteps); k++ {
+		far := len(ringSteps)
+		if l.crowd {
+			far = nearRings // no leader across the drawing to one of many
+		}
+		for k := nearRings; k < far; k++ {
 			for d := range ringDirections {
 				if t := look(ring(k, d), true); t.free {
 					return take(t)
