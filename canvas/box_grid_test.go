@@ -29,12 +29,12 @@ func TestFreeAsEveryBox(t *testing.T) {
 		}
 		return float32(r.Float64() * 40)
 	}
-	var b builder
+	b := builder{s: &Scene{Width: 1200, Height: 1200}}
 	for range 2000 {
 		x, y := coordinate(), coordinate()
 		b.occupy(rect{x, y, x + size(), y + size()}, symbolBox)
 	}
-	if len(b.boxGrid.large) == 0 || len(b.boxGrid.cells) == 0 {
+	if len(b.boxGrid.large) == 0 || len(b.boxGrid.entries) == 0 {
 		t.Fatal("the boxes do not test both the grid and the list of large boxes")
 	}
 	disagree, taken := 0, 0

@@ -57,7 +57,18 @@ type builder struct {
 	boxes []box
 	// boxGrid finds the boxes near a place (see occupy).
 	boxGrid boxGrid
-	curves  [][]Point
+	// crowd are the crowd labels waiting for the others (see placeCrowd),
+	// until crowdLast.
+	crowd     []label
+	crowdLast bool
+	// full are the cells around which a label found no place (see fullCell).
+	full map[[2]int32]fullCell
+	// intervals are the exact solution's stretches, once worked out (see
+	// exactIntervals).
+	intervals []fem.Interval
+	// widths are the texts measured so far (see textWidth).
+	widths map[textKey]float32
+	curves [][]Point
 	// band bounds the labels placed while a band (the sketch, a strip) is
 	// drawn; zero for the whole scene.
 	band rect
@@ -125,6 +136,16 @@ func build(in Input, v View) *builder {
 		b.hoverLine(b.sx(in.HoverX), lay.top, v.Height)
 	}
 	return b
+}
+
+// exactIntervals are the stretches of the exact solution in the input,
+// worked out on the first call: the deflection and the strips both look
+// for their extremes in them.
+func (b *builder) exactIntervals() []fem.Interval {
+	if b.intervals == nil {
+		b.intervals = b.in.Exact.Intervals()
+	}
+	return b.intervals
 }
 
 // hoverLine draws the dashed line under the mouse from y0 to y1, broken
@@ -318,7 +339,7 @@ func (b *builder) circle(c Point, r float32, fill, stroke color.NRGBA, width flo
 // fraction of the box (0 = left/top, 0.5 = centre, 1 = right/bottom). The box
 // is kept inside the scene width. It returns the box.
 func (b *builder) text(s string, x, y float32, size float32, ax, ay float32, c color.NRGBA, bold bool) rect {
-	w := textWidth(s, size, bold)
+	w := b.textWidth(s, size, bold)
 	h := TextHeight(size)
 	left := x - ax*w
 	left = max(2, min(b.v.Width-w-2, left))

@@ -57,6 +57,12 @@ type label struct {
 	plain bool
 	// compact is the label in one line, tried where lines find no place.
 	compact string
+	// crowd is set for labels that may come by the hundred, the forces':
+	// one that finds none of its own spots free waits until the labels
+	// that are fewer and more to the point are placed (see placeCrowd),
+	// then looks on the near rings only, and not even there around a
+	// place where one of them found no room (see fullCell).
+	crowd bool
 }
 
 // labelSpot puts a label's box with the point (ax, ay) of it, in fractions
@@ -75,6 +81,25 @@ var ringSteps = []float32{10, 18, 28, 40, 56, 76, 100}
 
 const nearRings = 5
 
+// fullCell is the size of a crowd label whose ring search, from a point in
+// one cell of gridCell pixels, found every spot taken, in the band then
+// drawn.
+//
+// Where loads stand closer than their labels are wide, most of their
+// labels find no place, and each looked at dozens of spots before giving
+// up: the work grew with the loads, not with the pixels. The rings sample
+// the space around a point no finer than gridCell pixels (8 px between
+// the nearest rings, more farther out), so a search from another point
+// of the same cell, for a label no smaller, would look at the same full
+// places: it is skipped, and the label tries only its own spots. So at
+// most one search fails per cell of the band and label size, however
+// many loads stand in it. Labels that are not of the crowd, fewer and
+// more to the point, always look.
+type fullCell struct {
+	w, h float32
+	band rect
+}
+
 // ringDirections are the directions of a ring's spots, from the label's
 // point, as unit steps: above, below, right, left, then the diagonals.
 var ringDirections = [][2]float32{{0, -1}, {0, 1}, {1, 0}, {-1, 0}, {1, -1}, {-1, -1}, {1, 1}, {-1, 1}}
@@ -86,67 +111,103 @@ var ringDirections = [][2]float32{{0, -1}, {0, 1}, {1, 0}, {-1, 0}, {1, -1}, {-1
 func (b *builder) place(l label) (rect, bool) {
 	w, h := float32(0), TextHeight(l.size)*float32(len(l.lines))
 	for _, s := range l.lines {
-		w = max(w, textWidth(s, l.size, l.bold))
+		w = max(w, b.textWidth(s, l.size, l.bold))
 	}
 	within := b.band // the band being drawn, else the scene
 	if within == (rect{}) {
 		within = rect{0, 0, b.v.Width, b.s.Height}
 	}
-	fit := func(s labelSpot) (rect, bool) {
+	// Nothing is placed while place looks, so each spot is tried once:
+	// whether its box is free, and then whether it is clear of the curves.
+	type try struct {
+		r      rect
+		ax     float32
+		free   bool
+		leader bool
+	}
+	look := func(s labelSpot, leader bool) try {
 		if s.x < -20 || s.x > b.v.Width+20 {
-			return rect{}, false // the thing labelled is off screen
+			return try{} // the thing labelled is off screen
 		}
 		left := max(within.x0+2, min(within.x1-w-2, s.x-s.ax*w))
 		r := rect{left, s.y - s.ay*h, left + w, s.y - s.ay*h + h}
-		if r.y0 < within.y0 || r.y1 > within.y1 || r.x0 < within.x0 || r.x1 > within.x1 || !b.free(r) {
-			return rect{}, false
-		}
-		return r, true
+		free := r.y0 >= within.y0 && r.y1 <= within.y1 && r.x0 >= within.x0 && r.x1 <= within.x1 && b.free(r)
+		return try{r, s.ax, free, leader}
 	}
-	// first is the first of spots that is free and, with clear, also
-	// clear of the curves.
-	first := func(spots []labelSpot, clear bool) (rect, labelSpot, bool) {
-		for _, s := range spots {
-			if r, ok := fit(s); ok && (!clear || !b.crossesCurve(r)) {
-				return r, s, true
-			}
-		}
-		return rect{}, labelSpot{}, false
+	take := func(t try) (rect, bool) {
+		b.put(l, t.r, t.ax, t.leader)
+		return t.r, true
 	}
 	// A spot of its own clear of the curves; a near ring clear of them, with
 	// a short leader; a spot of its own across a curve; any ring. An
 	// optional label takes its own spots or nothing.
-	if r, s, ok := first(l.spots, true); ok {
-		b.put(l, r, s.ax, false)
-		return r, true
+	own := make([]try, 0, 8)
+	for _, s := range l.spots {
+		t := look(s, false)
+		if t.free && !b.crossesCurve(t.r) {
+			return take(t)
+		}
+		own = append(own, t)
 	}
-	if l.optional {
-		if r, s, ok := first(l.spots, false); ok {
-			b.put(l, r, s.ax, false)
-			return r, true
+	if l.crowd && !b.crowdLast {
+		b.crowd = append(b.crowd, l)
+		return rect{}, false
+	}
+	ownFree := func() (rect, bool) {
+		for _, t := range own {
+			if t.free {
+				return take(t)
+			}
 		}
 		return rect{}, false
 	}
-	rings := make([][]labelSpot, len(ringSteps))
-	for k, d := range ringSteps {
-		for _, dir := range ringDirections {
-			rings[k] = append(rings[k], labelSpot{l.at.X + d*dir[0], l.at.Y + d*dir[1], (1 - dir[0]) / 2, (1 - dir[1]) / 2})
+	if l.optional {
+		return ownFree()
+	}
+	ring := func(k, d int) labelSpot {
+		dir := ringDirections[d]
+		return labelSpot{l.at.X + ringSteps[k]*dir[0], l.at.Y + ringSteps[k]*dir[1], (1 - dir[0]) / 2, (1 - dir[1]) / 2}
+	}
+	cell := [2]int32{int32(math.Floor(float64(l.at.X / gridCell))), int32(math.Floor(float64(l.at.Y / gridCell)))}
+	f, seen := b.full[cell]
+	full := l.crowd && seen && f.band == within && w >= f.w && h >= f.h
+	var near [nearRings * 8]try
+	if !full {
+		for k := range nearRings {
+			for d := range ringDirections {
+				t := look(ring(k, d), true)
+				if t.free && !b.crossesCurve(t.r) {
+					return take(t)
+				}
+				near[k*8+d] = t
+			}
 		}
 	}
-	for k := range nearRings {
-		if r, s, ok := first(rings[k], true); ok {
-			b.put(l, r, s.ax, true)
-			return r, true
-		}
-	}
-	if r, s, ok := first(l.spots, false); ok {
-		b.put(l, r, s.ax, false)
+	if r, ok := ownFree(); ok {
 		return r, true
 	}
-	for _, ring := range rings {
-		if r, s, ok := first(ring, false); ok {
-			b.put(l, r, s.ax, true)
-			return r, true
+	if !full {
+		for _, t := range near {
+			if t.free {
+				return take(t)
+			}
+		}
+		far := len(ringSteps)
+		if l.crowd {
+			far = nearRings // no leader across the drawing to one of many
+		}
+		for k := nearRings; k < far; k++ {
+			for d := range ringDirections {
+				if t := look(ring(k, d), true); t.free {
+					return take(t)
+				}
+			}
+		}
+		if l.crowd {
+			if b.full == nil {
+				b.full = map[[2]int32]fullCell{}
+			}
+			b.full[cell] = fullCell{w, h, within}
 		}
 	}
 	if l.compact != "" && len(l.lines) > 1 {
@@ -154,6 +215,18 @@ func (b *builder) place(l label) (rect, bool) {
 		return b.place(l)
 	}
 	return rect{}, false
+}
+
+// placeCrowd places the crowd labels that found none of their own spots
+// free, now that the other labels of the band are placed: where forces
+// stand closer than their labels are wide, their labels would otherwise
+// take every place a reaction's or a check's label could have.
+func (b *builder) placeCrowd() {
+	b.crowdLast = true
+	for _, l := range b.crowd {
+		b.place(l)
+	}
+	b.crowd, b.crowdLast = nil, false
 }
 
 // free reports whether r, with a little space around it, overlaps no box.
@@ -165,6 +238,9 @@ func (b *builder) free(r rect) bool {
 
 // occupy keeps labels off r from now on.
 func (b *builder) occupy(r rect, kind boxKind) {
+	if b.boxGrid.newest == nil {
+		b.boxGrid = newBoxGrid(b.s.Width, b.s.Height)
+	}
 	b.boxGrid.add(r, int32(len(b.boxes)))
 	b.boxes = append(b.boxes, box{r, kind})
 }
@@ -174,10 +250,22 @@ func (b *builder) occupy(r rect, kind boxKind) {
 // them: a drawing of thousands of supports has thousands of boxes and
 // tries dozens of spots per label. A box that spans more than gridSpan
 // cells, or whose corners are not numbers in order, is looked at always.
+// The cells cover the scene and are a slice, not a map (looking cells up
+// in a map was a tenth of a drawing with 1,000 point loads); a box or a
+// rect off the scene counts in the cells at its edge, so two that overlap
+// still share a cell.
 type boxGrid struct {
-	cells map[[2]int32][]int32
-	large []int32
+	columns, rows int32
+	// newest is, per cell, 1 + the index in entries of the cell's newest
+	// entry, 0 for none; each entry links to the one before it in its cell.
+	newest  []int32
+	entries []gridEntry
+	large   []int32
 }
+
+// gridEntry is a box in one cell, and 1 + the index of the cell's entry
+// before it (0 for none).
+type gridEntry struct{ box, before int32 }
 
 // Beside a member on thousands of supports the support symbols pile up
 // hundreds to a cell; at 8 px a PNG of 28,000 supports took 10 s, at
@@ -187,32 +275,47 @@ const (
 	gridSpan = 64
 )
 
-// cellSpan returns the cells from lo to hi along one axis; false when
-// they are too many or lo and hi are not numbers in order. Far places
-// are clamped: a box and a rect that overlap still share a cell.
-func cellSpan(lo, hi float32) (int32, int32, bool) {
+// newBoxGrid covers a scene of width × height pixels, or of 8192 px along
+// a longer side: past it, boxes share the cells at the edge.
+func newBoxGrid(width, height float32) boxGrid {
+	cells := func(px float32) int32 { return int32(max(0, min(8192, px))/gridCell) + 1 }
+	c, r := cells(width), cells(height)
+	return boxGrid{columns: c, rows: r, newest: make([]int32, c*r)}
+}
+
+// cellSpan returns the cells from lo to hi along an axis of n cells;
+// false when they are too many or lo and hi are not numbers in order.
+// Far places are clamped: a box and a rect that overlap still share a
+// cell.
+func cellSpan(lo, hi float32, n int32) (int32, int32, bool) {
 	if !(lo <= hi) {
 		return 0, 0, false
 	}
 	const far = 1 << 20
 	a := int32(math.Floor(float64(max(-far, min(far, lo)) / gridCell)))
 	z := int32(math.Floor(float64(max(-far, min(far, hi)) / gridCell)))
-	return a, z, z-a <= gridSpan
+	return max(0, min(n-1, a)), max(0, min(n-1, z)), z-a <= gridSpan
+}
+
+// cells returns the columns and rows of cells that r touches; false when
+// r is to be looked at always.
+func (g *boxGrid) cells(r rect) (x0, x1, y0, y1 int32, ok bool) {
+	x0, x1, okx := cellSpan(r.x0, r.x1, g.columns)
+	y0, y1, oky := cellSpan(r.y0, r.y1, g.rows)
+	return x0, x1, y0, y1, okx && oky
 }
 
 func (g *boxGrid) add(r rect, i int32) {
-	x0, x1, okx := cellSpan(r.x0, r.x1)
-	y0, y1, oky := cellSpan(r.y0, r.y1)
-	if !okx || !oky {
+	x0, x1, y0, y1, ok := g.cells(r)
+	if !ok {
 		g.large = append(g.large, i)
 		return
 	}
-	if g.cells == nil {
-		g.cells = map[[2]int32][]int32{}
-	}
-	for x := x0; x <= x1; x++ {
-		for y := y0; y <= y1; y++ {
-			g.cells[[2]int32{x, y}] = append(g.cells[[2]int32{x, y}], i)
+	for y := y0; y <= y1; y++ {
+		for x := x0; x <= x1; x++ {
+			c := y*g.columns + x
+			g.entries = append(g.entries, gridEntry{i, g.newest[c]})
+			g.newest[c] = int32(len(g.entries))
 		}
 	}
 }
@@ -220,9 +323,11 @@ func (g *boxGrid) add(r rect, i int32) {
 // any reports whether overlaps holds for a box that may overlap r, of the
 // n boxes listed.
 func (g *boxGrid) any(r rect, n int, overlaps func(int32) bool) bool {
-	x0, x1, okx := cellSpan(r.x0, r.x1)
-	y0, y1, oky := cellSpan(r.y0, r.y1)
-	if !okx || !oky {
+	if g.newest == nil {
+		return false // nothing added
+	}
+	x0, x1, y0, y1, ok := g.cells(r)
+	if !ok {
 		for i := range int32(n) {
 			if overlaps(i) {
 				return true
@@ -230,10 +335,10 @@ func (g *boxGrid) any(r rect, n int, overlaps func(int32) bool) bool {
 		}
 		return false
 	}
-	for x := x0; x <= x1; x++ {
-		for y := y0; y <= y1; y++ {
-			for _, i := range g.cells[[2]int32{x, y}] {
-				if overlaps(i) {
+	for y := y0; y <= y1; y++ {
+		for x := x0; x <= x1; x++ {
+			for e := g.newest[y*g.columns+x]; e != 0; e = g.entries[e-1].before {
+				if overlaps(g.entries[e-1].box) {
 					return true
 				}
 			}

@@ -329,10 +329,10 @@ func eachPixel(m *fem.Model, v View, add func(x float64, side fem.Side)) {
 // Where the exact solution reaches an extreme also at the place of the
 // finite element extreme of the same kind in near, to round-off (the two
 // ends of a symmetric span, say), that place is taken, so that a label
-// pairs the two where they belong together.
-func exactExtremes(e *fem.Exact, v View, qs []fem.Quantity, near []*curve) (lo, hi []extreme) {
+// pairs the two where they belong together. ivs are e's stretches
+// (fem.Exact.Intervals), worked out once for every call of a build.
+func exactExtremes(e *fem.Exact, ivs []fem.Interval, v View, qs []fem.Quantity, near []*curve) (lo, hi []extreme) {
 	lo, hi = make([]extreme, len(qs)), make([]extreme, len(qs))
-	ivs := e.Intervals()
 	x0, x1 := v.ToModelX(0), v.ToModelX(v.Width)
 	for i, q := range qs {
 		lo[i], hi[i] = extreme{value: math.Inf(1)}, extreme{value: math.Inf(-1)}

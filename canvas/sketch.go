@@ -74,8 +74,15 @@ func (b *builder) sketch(lay layoutBands) {
 	}
 
 	b.distributedLoads(lay)
+	// The forces' arrows before their labels, so that no label lies on an
+	// arrow drawn after it.
+	forces := b.forceColumns(y)
+	for _, col := range forces.columns {
+		b.arrow(col.tail, col.tip, col.colour, 2, 10)
+		b.symbol(rect{col.tail.X - 5, min(col.tail.Y, col.tip.Y), col.tail.X + 5, max(col.tail.Y, col.tip.Y)})
+	}
 	for i, p := range m.PointLoads {
-		b.pointLoad(i, p, y)
+		b.pointLoad(i, p, y, forces)
 	}
 	b.segments(y) // the names where the loads leave room
 	b.marks(lay.sketchBottom - 4)
@@ -89,6 +96,7 @@ func (b *builder) sketch(lay layoutBands) {
 	if deflected != nil {
 		b.deformed(deflected)
 	}
+	b.placeCrowd()
 	b.line(faintColour, 0.75, Point{0, lay.sketchBottom}, Point{b.v.Width, lay.sketchBottom})
 }
 
@@ -356,28 +364,27 @@ func (b *builder) springs(x, y, dir float32, k [3]float64, c color.NRGBA) {
 	}
 }
 
-// pointLoad draws forces as arrows (transverse ones onto the member, axial
-// ones along it) and a moment as a curved arrow showing its sense.
-func (b *builder) pointLoad(i int, p fem.PointLoad, y float32) {
+// pointLoad labels the arrow of a transverse force (drawn with the others
+// by sketch), when it is the first of those that share it (see
+// forceColumns), and draws axial forces as arrows along the member and a
+// moment as a curved arrow showing its sense. Every force keeps its own
+// handle.
+func (b *builder) pointLoad(i int, p fem.PointLoad, y float32, forces forceArrows) {
 	ref := Ref{Kind: PointLoad, Index: i}
 	c := b.colourFor(ref, loadColour)
 	x := b.sx(p.X)
 	if p.Transverse != 0 {
-		if p.Transverse < 0 {
-			tip := Point{x, y - memberWidth/2 - 1}
-			tail := Point{x, tip.Y - arrowLength}
-			b.arrow(tail, tip, c, 2, 10)
-			b.symbol(rect{x - 5, tail.Y, x + 5, tip.Y})
-			b.pointLabel(b.format(units.Force, math.Abs(p.Transverse)), tail, 1)
-			b.handle(ref, 6, tail, tip)
-		} else {
-			tip := Point{x, y + memberWidth/2 + 1}
-			tail := Point{x, tip.Y + arrowLength}
-			b.arrow(tail, tip, c, 2, 10)
-			b.symbol(rect{x - 5, tip.Y, x + 5, tail.Y})
-			b.pointLabel(b.format(units.Force, p.Transverse), tail, 0)
-			b.handle(ref, 6, tail, tip)
+		tip, tail, ay := forceArrow(x, y, p.Transverse)
+		if col, ok := forces.drawnBy(i); ok {
+			text := b.format(units.Force, math.Abs(p.Transverse))
+			if col.count > 1 && col.equal {
+				text = fmt.Sprintf("%d × %s", col.count, text)
+			} else if col.count > 1 {
+				text = fmt.Sprintf("%d loads, %s in all", col.count, b.format(units.Force, math.Abs(col.total)))
+			}
+			b.pointLabel(text, tail, ay)
 		}
+		b.handle(ref, 6, tail, tip)
 	}
 	if p.Axial != 0 {
 		dir := float32(1)
@@ -402,6 +409,85 @@ func (b *builder) pointLoad(i int, p fem.PointLoad, y float32) {
 	}
 }
 
+// forceArrows are the arrows of the transverse point forces: those that
+// stand in one pixel column and point the same way share one arrow and one
+// label, so that the arrows, and the labels looking for a place, are at
+// most two a column however many forces there are. A force more than 20 px
+// off the view draws nothing; the selected one draws its own arrow.
+type forceArrows struct {
+	// of is, per point load, 1 + the index of its arrow in columns; 0 when
+	// it draws none.
+	of      []int32
+	columns []forceColumn
+}
+
+// forceColumn is one drawn arrow of transverse forces.
+type forceColumn struct {
+	first     int     // the load that draws it: the first of them in the model
+	count     int     // the forces it stands for
+	total     float64 // their sum, N
+	equal     bool    // whether they are all alike
+	tail, tip Point
+	colour    color.NRGBA
+}
+
+// forceArrow returns the tail and tip of the arrow of a transverse force
+// at x on the member at y, and where its label hangs from the tail (1:
+// above it, 0: below).
+func forceArrow(x, y float32, force float64) (tip, tail Point, ay float32) {
+	if force > 0 {
+		tip = Point{x, y + memberWidth/2 + 1}
+		return tip, Point{x, tip.Y + arrowLength}, 0
+	}
+	tip = Point{x, y - memberWidth/2 - 1}
+	return tip, Point{x, tip.Y - arrowLength}, 1
+}
+
+// drawnBy returns the arrow of load i when i draws it.
+func (f forceArrows) drawnBy(i int) (forceColumn, bool) {
+	if f.of[i] == 0 {
+		return forceColumn{}, false
+	}
+	c := f.columns[f.of[i]-1]
+	return c, c.first == i
+}
+
+// forceColumns gathers the transverse point forces on the member at y
+// into their arrows.
+func (b *builder) forceColumns(y float32) forceArrows {
+	loads := b.in.Model.PointLoads
+	f := forceArrows{of: make([]int32, len(loads))}
+	const margin = 20
+	width := int(b.v.Width) + 2*margin + 1
+	at := make([]int32, 2*width) // per column and way, 1 + its arrow's index
+	for i, p := range loads {
+		x := b.sx(p.X)
+		if p.Transverse == 0 || !(x >= -margin && x <= b.v.Width+margin) {
+			continue
+		}
+		k := int(math.Floor(float64(x))) + margin
+		if p.Transverse > 0 {
+			k += width
+		}
+		if b.in.Selected == (Ref{Kind: PointLoad, Index: i}) || at[k] == 0 {
+			tip, tail, _ := forceArrow(x, y, p.Transverse)
+			c := b.colourFor(Ref{Kind: PointLoad, Index: i}, loadColour)
+			f.columns = append(f.columns, forceColumn{first: i, count: 1, total: p.Transverse, equal: true, tail: tail, tip: tip, colour: c})
+			f.of[i] = int32(len(f.columns))
+			if b.in.Selected != (Ref{Kind: PointLoad, Index: i}) {
+				at[k] = f.of[i]
+			}
+			continue
+		}
+		c := &f.columns[at[k]-1]
+		c.count++
+		c.total += p.Transverse
+		c.equal = c.equal && p.Transverse == loads[c.first].Transverse
+		f.of[i] = at[k]
+	}
+	return f
+}
+
 // pointLabel labels a force arrow at its tail, or, when the arrows of a
 // distributed load are in the way, above the load's outline.
 func (b *builder) pointLabel(s string, tail Point, ay float32) {
@@ -413,7 +499,7 @@ func (b *builder) pointLabel(s string, tail Point, ay float32) {
 	if top := b.loadTop(b.v.ToModelX(tail.X)); ay == 1 && top < tail.Y {
 		spots = append(spots, labelSpot{tail.X, top - 4, 0.5, 1})
 	}
-	b.place(label{lines: []string{s}, size: smallSize, colour: loadColour, at: tail, spots: spots})
+	b.place(label{lines: []string{s}, size: smallSize, colour: loadColour, at: tail, spots: spots, crowd: true})
 }
 
 // loadTop is the highest screen y of the distributed loads drawn at x, or
@@ -735,7 +821,7 @@ func (b *builder) deflected(lay layoutBands) *deflectedShape {
 	b.marker(at, 2.5, deformedColour, false)
 	var exact *extreme
 	if e := b.in.Exact; e != nil {
-		lo, hi := exactExtremes(e, b.v, []fem.Quantity{fem.QDeflection}, []*curve{b.deflection})
+		lo, hi := exactExtremes(e, b.exactIntervals(), b.v, []fem.Quantity{fem.QDeflection}, []*curve{b.deflection})
 		exact = &hi[0]
 		if peak.value < 0 {
 			exact = &lo[0]

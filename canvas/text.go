@@ -32,6 +32,28 @@ func textWidth(s string, size float32, bold bool) float32 {
 	return float32(w)
 }
 
+// textKey is a text as measured: its characters, size and weight.
+type textKey struct {
+	s    string
+	size float32
+	bold bool
+}
+
+// textWidth is the package's textWidth, measured once per drawing for each
+// text: a drawing of many loads writes the same few values again and again.
+func (b *builder) textWidth(s string, size float32, bold bool) float32 {
+	k := textKey{s, size, bold}
+	if w, ok := b.widths[k]; ok {
+		return w
+	}
+	if b.widths == nil {
+		b.widths = map[textKey]float32{}
+	}
+	w := textWidth(s, size, bold)
+	b.widths[k] = w
+	return w
+}
+
 // Superscript digits and minus are drawn in every export as ordinary
 // characters, smaller and raised: "mm⁴" is "mm" and a raised "4". The PDF
 // writer's text knows only code page 1252, which lacks ⁰ ⁴ … ⁹ ⁻, and the
