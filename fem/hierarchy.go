@@ -65,9 +65,11 @@ type stretchRefiner struct {
 	fields      []elementField
 	sectionData // of the stretch
 	order       ElementOrder
-	// stretch is the stretch being refined. Its loads are linear when it
-	// has no breaks: intensity at start plus slope·(x − start).
+	// stretch is the stretch being refined. Its loads are linear on the
+	// interval being refined when linear is true (always when it has no
+	// breaks): intensity at start plus slope·(x − start).
 	stretch                     *elementData
+	linear                      bool
 	start                       float64
 	axial, axialSlope           float64 // N/m, N/m²
 	transverse, transverseSlope float64 // N/m, N/m²
@@ -175,6 +177,7 @@ func (r *stretchRefiner) setup(d *elementData) {
 	r.sectionData = d.sectionData
 	r.stretch = d
 	r.start = d.start
+	r.linear = len(d.breaks) == 0
 	r.axial, r.axialSlope = d.axialLoad[0], (d.axialLoad[1]-d.axialLoad[0])/d.length
 	r.transverse, r.transverseSlope = d.transverseLoad[0], (d.transverseLoad[1]-d.transverseLoad[0])/d.length
 	r.points, r.pointNodes = d.points, r.pointNodes[:0]
@@ -219,6 +222,13 @@ func (r *stretchRefiner) split(lo, hi int, c taylor) {
 		r.finish(lo, c)
 		return
 	}
+	if !r.linear && r.stretch.smooth(r.x[lo], r.x[hi]) {
+		// No break of the loads inside: below here they are one linear piece.
+		r.linearOn(r.x[lo], r.x[hi])
+		r.split(lo, hi, c)
+		r.linear = false
+		return
+	}
 	m, left, right := r.middle(lo, hi, c)
 	r.split(lo, m, left)
 	r.split(m, hi, right)
@@ -242,7 +252,7 @@ func (r *stretchRefiner) middle(lo, hi int, c taylor) (m int, left, right taylor
 	}
 	var cu float64
 	var fl, fr localVector
-	if s := r.stretch; len(s.breaks) == 0 {
+	if s := r.stretch; r.linear {
 		pl, pm, ph := r.axialAt(xl), r.axialAt(xm), r.axialAt(xh)
 		ql, qm, qh := r.transverseAt(xl), r.transverseAt(xm), r.transverseAt(xh)
 		cu = (a*(pl+2*pm) + b*(2*pm+ph)) / (6 * r.axialRigidity * (ia + ib))
@@ -411,8 +421,17 @@ func (r *stretchRefiner) pointsOn(lo, m, hi int) (bar, w, theta float64) {
 	return bar, w, theta
 }
 
-// axialAt and transverseAt are the line loads at x of a stretch without
-// breaks.
+// linearOn sets the linear loads to those of the stretch on [x0, x1], where
+// no break lies inside.
+func (r *stretchRefiner) linearOn(x0, x1 float64) {
+	s, h := r.stretch, x1-x0
+	r.linear, r.start = true, x0
+	r.axial, r.axialSlope = s.axialAt(x0, Right), (s.axialAt(x1, Left)-s.axialAt(x0, Right))/h
+	r.transverse, r.transverseSlope = s.transverseAt(x0, Right), (s.transverseAt(x1, Left)-s.transverseAt(x0, Right))/h
+}
+
+// axialAt and transverseAt are the line loads at x where they are linear
+// (linear is true).
 func (r *stretchRefiner) axialAt(x float64) float64 {
 	return r.axial + r.axialSlope*(x-r.start)
 }
