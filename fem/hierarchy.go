@@ -250,22 +250,23 @@ func (r *stretchRefiner) middle(lo, hi int, c taylor) (m int, left, right taylor
 	if r.shear != 0 {
 		return r.middleWithShear(lo, m, hi, c)
 	}
-	var cu float64
-	var fl, fr localVector
+	var cu, fw, ft float64
 	if s := r.stretch; r.linear {
 		pl, pm, ph := r.axialAt(xl), r.axialAt(xm), r.axialAt(xh)
 		ql, qm, qh := r.transverseAt(xl), r.transverseAt(xm), r.transverseAt(xh)
 		cu = (a*(pl+2*pm) + b*(2*pm+ph)) / (6 * r.axialRigidity * (ia + ib))
-		fl, fr = hermiteLoads(a, ql, qm), hermiteLoads(b, qm, qh)
+		// hermiteLoads of the two elements at m, two divisions instead of eight.
+		fw = (a*(3*ql+7*qm) + b*(7*qm+3*qh)) / 20
+		ft = (b*b*(3*qm+2*qh) - a*a*(2*ql+3*qm)) / 60
 	} else {
 		cu = (s.linearBarLoadsOn(xl, xm)[1] + s.linearBarLoadsOn(xm, xh)[0]) / (r.axialRigidity * (ia + ib))
-		fl, fr = s.hermiteLoadsOn(xl, xm), s.hermiteLoadsOn(xm, xh)
+		fl, fr := s.hermiteLoadsOn(xl, xm), s.hermiteLoadsOn(xm, xh)
+		fw, ft = fl[2]+fr[0], fl[3]+fr[1]
 	}
 	ei := r.flexuralRigidity
 	k11 := 12 * ei * (ia*ia*ia + ib*ib*ib)
 	k12 := 6 * ei * (ib*ib - ia*ia)
 	k22 := 4 * ei * (ia + ib)
-	fw, ft := fl[2]+fr[0], fl[3]+fr[1]
 	if len(r.points) > 0 {
 		pu, pw, pt := r.pointsOn(lo, m, hi)
 		cu += pu / (r.axialRigidity * (ia + ib))
