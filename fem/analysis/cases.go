@@ -195,6 +195,13 @@ func (c *Cases) finish(a *Analysis, opts check.Options) {
 	c.Envelope = c.Solutions.Envelope()
 	per := make([][]check.Result, len(c.Combinations))
 	for k := range c.Combinations {
+		if k == c.shownCombination() {
+			// Finish's own walk was of this combination: a.Solution and
+			// a.Exact are its, solved the same way to the bit.
+			c.Summaries = append(c.Summaries, a.Summary())
+			per[k] = a.Checks
+			continue
+		}
 		s, err := c.Solutions.Solution(k)
 		if err != nil {
 			continue
@@ -224,6 +231,18 @@ func (c *Cases) finish(a *Analysis, opts check.Options) {
 		a.Checks = append(a.Checks, best)
 		c.Governing = append(c.Governing, by)
 	}
+}
+
+// shownCombination is the combination whose solution the analysis shows
+// (the first for the envelope), or −1 for a load case.
+func (c *Cases) shownCombination() int {
+	switch c.Show.Kind {
+	case ShowEnvelope:
+		return 0
+	case ShowCombination:
+		return c.Show.Index
+	}
+	return -1
 }
 
 // judges reports whether combination k is of the kind that judges check
