@@ -146,7 +146,11 @@ func (r *stretchRefiner) cut(jobs []refineJob, stretches []elementData, most int
 			out = append(out, j)
 			return
 		}
+		entered := !r.linear && r.enter(j.lo, j.hi) // as split does
 		m, left, right := r.middle(j.lo, j.hi, j.c)
+		if entered {
+			r.linear = false
+		}
 		cutJob(refineJob{stretch: j.stretch, lo: j.lo, hi: m, c: left})
 		cutJob(refineJob{stretch: j.stretch, lo: m, hi: j.hi, c: right})
 	}
@@ -222,9 +226,7 @@ func (r *stretchRefiner) split(lo, hi int, c taylor) {
 		r.finish(lo, c)
 		return
 	}
-	if !r.linear && r.stretch.smooth(r.x[lo], r.x[hi]) {
-		// No break of the loads inside: below here they are one linear piece.
-		r.linearOn(r.x[lo], r.x[hi])
+	if !r.linear && r.enter(lo, hi) {
 		r.split(lo, hi, c)
 		r.linear = false
 		return
@@ -422,13 +424,30 @@ func (r *stretchRefiner) pointsOn(lo, m, hi int) (bar, w, theta float64) {
 	return bar, w, theta
 }
 
-// linearOn sets the linear loads to those of the stretch on [x0, x1], where
-// no break lies inside.
-func (r *stretchRefiner) linearOn(x0, x1 float64) {
-	s, h := r.stretch, x1-x0
-	r.linear, r.start = true, x0
-	r.axial, r.axialSlope = s.axialAt(x0, Right), (s.axialAt(x1, Left)-s.axialAt(x0, Right))/h
-	r.transverse, r.transverseSlope = s.transverseAt(x0, Right), (s.transverseAt(x1, Left)-s.transverseAt(x0, Right))/h
+// enter switches r to linear loads on [lo, hi] when no break of the
+// stretch's loads lies inside (below there they are one linear piece), and
+// reports whether it did. The loads are the whole piece's, whatever
+// interval of it enters, so that the jobs cut for two goroutines refine to
+// the same bits as one walk of the stretch.
+func (r *stretchRefiner) enter(lo, hi int) bool {
+	s := r.stretch
+	x0, x1 := r.x[lo], r.x[hi]
+	i := sort.Search(len(s.breaks), func(i int) bool { return s.breaks[i].x > x0 })
+	if i < len(s.breaks) && s.breaks[i].x < x1 {
+		return false
+	}
+	a, b := s.start, s.start+s.length
+	p, q := [2]float64{s.axialLoad[0], s.transverseLoad[0]}, [2]float64{s.axialLoad[1], s.transverseLoad[1]}
+	if i > 0 {
+		a, p = s.breaks[i-1].x, s.breaks[i-1].right
+	}
+	if i < len(s.breaks) {
+		b, q = s.breaks[i].x, s.breaks[i].left
+	}
+	r.linear, r.start = true, a
+	r.axial, r.axialSlope = p[0], (q[0]-p[0])/(b-a)
+	r.transverse, r.transverseSlope = p[1], (q[1]-p[1])/(b-a)
+	return true
 }
 
 // axialAt and transverseAt are the line loads at x where they are linear
