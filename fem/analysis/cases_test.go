@@ -51,3 +51,41 @@ func TestCasesSummariesAreEachCombinations(t *testing.T) {
 		}
 	}
 }
+
+// CaseSummary solves every case on one structure shared by the cases; each
+// summary must be that of the case solved on a structure of its own
+// against its own exact solution, in every view.
+func TestCaseSummaryIsTheCaseAlone(t *testing.T) {
+	m := load(t, "two_span_cases.json")
+	for _, show := range []Show{{Kind: ShowEnvelope}, {Kind: ShowCase, Index: 1}} {
+		a, err := Run(context.Background(), Request{Model: m, Show: show})
+		if err != nil || a.Err != nil || a.Cases == nil {
+			t.Fatalf("%v, %v", err, a.Err)
+		}
+		p, err := fem.Prepare(&m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		exacts, err := p.ExactLoadSets()
+		if err != nil {
+			t.Fatal(err)
+		}
+		for k := range m.Cases {
+			got, err := a.Cases.CaseSummary(k)
+			if err != nil {
+				t.Fatal(err)
+			}
+			st, err := p.Structure(p.Mesh())
+			if err != nil {
+				t.Fatal(err)
+			}
+			s, err := st.Solve(&p.LoadSets()[k])
+			if err != nil {
+				t.Fatal(err)
+			}
+			if want := fem.Summarize(s, exacts[k]); !reflect.DeepEqual(got, want) {
+				t.Errorf("%s: case %q's summary differs from the case solved alone", show.Title(&m), m.Cases[k].Name)
+			}
+		}
+	}
+}
