@@ -218,3 +218,120 @@ func TestSpanLoadsAddUp(t *testing.T) {
 		}
 	}
 }
+
+// Superposition (linear elasticity: small displacements and Hooke's law
+// make the response to Σ fₖ·loadsₖ equal to Σ fₖ·responseₖ; any mechanics
+// of materials text, from memory): on a mesh refined on two goroutines,
+// with ramps, steps, self-weight, temperature and settlements among the
+// cases, each combination's fields as the envelope solves them
+// (CombinationSolutions.Solution, one load set per combination) equal the
+// factor-weighted sum of its cases' fields (CombineSolutions) and the
+// fields of the combined loads solved directly as a model of their own, at
+// both ends and the middle of every element, to round-off.
+func TestCombinationFieldsAreSumOfCaseFields(t *testing.T) {
+	const L = 12.0
+	ramp := DistributedLoad{Direction: Transverse, Points: []LoadPoint{{0, -2e3}, {L, -9e3}}}
+	step := DistributedLoad{Direction: Transverse, Points: []LoadPoint{{2.5, -6e3}, {7, -6e3}}}
+	pull := DistributedLoad{Direction: Axial, Points: []LoadPoint{{1, 3e3}, {11, 0}}}
+	m := Model{
+		Segments: []Segment{testSegment(0, 5), testSegment(5, L)},
+		Supports: []Support{{X: 0, Kind: Pinned, Settlement: [3]float64{0, -2e-3, 0}}, {X: 5, Kind: Roller}, {X: L, Kind: Fixed}},
+		Cases: []LoadCase{
+			{Name: "permanent", DistributedLoad: []DistributedLoad{ramp}, SelfWeight: true},
+			{Name: "imposed", DistributedLoad: []DistributedLoad{step, pull}, PointLoads: []PointLoad{{X: 3.3, Transverse: -20e3}, {X: 9.1, Moment: 8e3}}},
+			{Name: "thermal", TemperatureChange: 25, PointLoads: []PointLoad{{X: 6.4, Axial: 15e3}}},
+			{Name: "settlement", Settlements: true},
+		},
+		Gravity: [2]float64{0, -StandardGravity},
+		Mesh:    MeshSettings{Elements: 2 * parallelRefine},
+	}
+	m.Segments[1].Section.SecondMoment *= 1.7
+	m.Combinations = []Combination{
+		{Name: "strength", Factors: []CaseFactor{{0, 1.35}, {1, 1.5}, {2, 0.9}, {3, 1}}},
+		{Name: "uplift", Factors: []CaseFactor{{0, 0.9}, {2, -1.2}, {3, -0.5}}},
+	}
+	p, err := Prepare(&m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	mesh := p.Mesh()
+	cs, err := p.SolveCombinations(mesh)
+	if err != nil {
+		t.Fatal(err)
+	}
+	cases, err := p.SolveLoadSets(mesh)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for c, cb := range m.Combinations {
+		factors := make([]float64, len(cases))
+		for _, cf := range cb.Factors {
+			factors[cf.Case] = cf.Factor
+		}
+		sum, err := CombineSolutions(cases, factors)
+		if err != nil {
+			t.Fatal(err)
+		}
+		combined := combinedModel(&m, factors)
+		direct, err := SolveOnMesh(&combined, mesh)
+		if err != nil {
+			t.Fatal(err)
+		}
+		got, err := cs.Solution(c)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var scale [quantityCount]float64
+		for _, e := range mesh.Elements {
+			f := direct.At(e.Start, Right)
+			for _, q := range Quantities() {
+				scale[q] = max(scale[q], math.Abs(q.Of(&f)))
+			}
+		}
+		for i, e := range mesh.Elements {
+			for _, at := range []struct {
+				x    float64
+				side Side
+			}{{e.Start, Right}, {0.5 * (e.Start + e.End), Right}, {e.End, Left}} {
+				want, g, s := direct.At(at.x, at.side), got.At(at.x, at.side), sum.At(at.x, at.side)
+				for _, q := range Quantities() {
+					tol := 1e-9 * scale[q]
+					if d1, d2 := math.Abs(q.Of(&g)-q.Of(&want)), math.Abs(q.Of(&s)-q.Of(&want)); d1 > tol || d2 > tol {
+						t.Fatalf("%s, element %d, x = %.6g m: %s %.12g (combination) and %.12g (sum of cases), %.12g solved directly", cb.Name, i, at.x, q, q.Of(&g), q.Of(&s), q.Of(&want))
+					}
+				}
+			}
+		}
+	}
+}
+
+// combinedModel is the loads of m's cases with factors (one per case)
+// as one model without cases. It takes at most one case of self-weight
+// and one of settlements, as TestCombinationFieldsAreSumOfCaseFields has.
+func combinedModel(m *Model, factors []float64) Model {
+	out := m.LoadSet(0)
+	out.PointLoads, out.DistributedLoad, out.TemperatureChange = nil, nil, 0
+	out.Gravity = [2]float64{}
+	for i := range out.Supports {
+		out.Supports[i].Settlement = [3]float64{}
+	}
+	for k, lc := range m.Cases {
+		f := factors[k]
+		set := m.LoadSet(k)
+		scaleLoads(&set, f)
+		out.PointLoads = append(out.PointLoads, set.PointLoads...)
+		out.DistributedLoad = append(out.DistributedLoad, set.DistributedLoad...)
+		out.TemperatureChange += f * lc.TemperatureChange
+		if lc.SelfWeight {
+			out.Gravity = [2]float64{f * m.Gravity[0], f * m.Gravity[1]}
+		}
+		if lc.Settlements {
+			for i, s := range m.Supports {
+				for d := range s.Settlement {
+					out.Supports[i].Settlement[d] = f * s.Settlement[d]
+				}
+			}
+		}
+	}
+	return out
+}

@@ -293,9 +293,26 @@ func TestReactionsNextToShortStretch(t *testing.T) {
 // Meshes of parallelRefine elements or more are refined in jobs on two
 // goroutines; every nodal displacement and element field must equal, to the
 // bit, what one refiner walking each stretch from its key points gives, and
-// the strain energy (summed in two parts) must agree to round-off.
+// the strain energy (summed in two parts) must agree to round-off. The
+// second model's one stretch has a load break near its start, so the jobs
+// are cut from intervals without a break inside, on the linear path.
 func TestParallelRefineMatchesSequential(t *testing.T) {
-	m := mixedModel(3 * parallelRefine)
+	short := &Model{
+		Segments: []Segment{testSegment(0, 8)},
+		Supports: []Support{{X: 0, Kind: Pinned}, {X: 6, Kind: Roller}, {X: 7, Kind: Roller}, {X: 8, Kind: Roller}},
+		DistributedLoad: []DistributedLoad{
+			{Direction: Transverse, Points: []LoadPoint{{0, -3e3}, {0.3, -1e3}}},
+			{Direction: Transverse, Points: []LoadPoint{{0, -2e3}, {8, -7e3}}},
+			{Direction: Axial, Points: []LoadPoint{{0, 1e3}, {8, -2e3}}},
+		},
+		Mesh: MeshSettings{Elements: 3 * parallelRefine},
+	}
+	for _, m := range []*Model{mixedModel(3 * parallelRefine), short} {
+		refineSequentially(t, m)
+	}
+}
+
+func refineSequentially(t *testing.T, m *Model) {
 	s := mustSolve(t, m)
 	keys, err := keyNodes(m, s.Mesh.X)
 	if err != nil {

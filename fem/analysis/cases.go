@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"strings"
+	"sync"
 
 	"stave/fem"
 	"stave/fem/check"
@@ -53,6 +54,43 @@ type Cases struct {
 	Governing []int
 	member    *fem.Member
 	mesh      fem.Mesh
+	alone     *caseSolver // shared by the copies of c
+}
+
+// caseSolver solves load cases alone: the finite element ones on one
+// structure, the exact ones all at once, each built on first use.
+type caseSolver struct {
+	mu               sync.Mutex
+	structure        *fem.Structure
+	structureErr     error
+	exacts           []*fem.Exact
+	exactErr         error
+	built, exactDone bool
+}
+
+// solve is load case k of c alone, on c's mesh.
+func (cs *caseSolver) solve(c *Cases, k int) (*fem.Solution, error) {
+	cs.mu.Lock()
+	defer cs.mu.Unlock()
+	if !cs.built {
+		cs.structure, cs.structureErr = c.member.Structure(c.mesh)
+		cs.built = true
+	}
+	if cs.structureErr != nil {
+		return nil, cs.structureErr
+	}
+	return cs.structure.Solve(&c.member.LoadSets()[k])
+}
+
+// exact is every load case's exact solution.
+func (cs *caseSolver) exact(c *Cases) ([]*fem.Exact, error) {
+	cs.mu.Lock()
+	defer cs.mu.Unlock()
+	if !cs.exactDone {
+		cs.exacts, cs.exactErr = c.member.ExactLoadSets()
+		cs.exactDone = true
+	}
+	return cs.exacts, cs.exactErr
 }
 
 // ShowNamed finds the case or combination named name (without regard to
@@ -106,7 +144,7 @@ func solveCases(a *Analysis, r Request) {
 			return
 		}
 	}
-	c := &Cases{Show: r.Show, Combinations: a.Model.EnvelopeCombinations(), member: p, mesh: mesh}
+	c := &Cases{Show: r.Show, Combinations: a.Model.EnvelopeCombinations(), member: p, mesh: mesh, alone: &caseSolver{}}
 	a.Cases = c
 	// One case or one combination needs its own load sets alone; the
 	// others follow in Finish.
@@ -174,7 +212,7 @@ func (c *Cases) exact() (*fem.Exact, error) {
 		return nil, err
 	}
 	if c.Show.Kind == ShowCase {
-		exacts, err := c.member.ExactLoadSets()
+		exacts, err := c.alone.exact(c)
 		if err != nil {
 			return nil, err
 		}
@@ -195,6 +233,13 @@ func (c *Cases) finish(a *Analysis, opts check.Options) {
 	c.Envelope = c.Solutions.Envelope()
 	per := make([][]check.Result, len(c.Combinations))
 	for k := range c.Combinations {
+		if k == c.shownCombination() {
+			// Finish's own walk was of this combination: a.Solution and
+			// a.Exact are its, solved the same way to the bit.
+			c.Summaries = append(c.Summaries, a.Summary())
+			per[k] = a.Checks
+			continue
+		}
 		s, err := c.Solutions.Solution(k)
 		if err != nil {
 			continue
@@ -224,6 +269,18 @@ func (c *Cases) finish(a *Analysis, opts check.Options) {
 		a.Checks = append(a.Checks, best)
 		c.Governing = append(c.Governing, by)
 	}
+}
+
+// shownCombination is the combination whose solution the analysis shows
+// (the first for the envelope), or −1 for a load case.
+func (c *Cases) shownCombination() int {
+	switch c.Show.Kind {
+	case ShowEnvelope:
+		return 0
+	case ShowCombination:
+		return c.Show.Index
+	}
+	return -1
 }
 
 // judges reports whether combination k is of the kind that judges check
@@ -261,17 +318,14 @@ func ratio(r check.Result) float64 {
 }
 
 // CaseSummary solves load case k alone and summarises it against its
-// exact solution.
+// exact solution. The structure and the cases' exact solutions are found
+// once for all the cases.
 func (c *Cases) CaseSummary(k int) (fem.Summary, error) {
-	st, err := c.member.Structure(c.mesh)
+	s, err := c.alone.solve(c, k)
 	if err != nil {
 		return fem.Summary{}, err
 	}
-	s, err := st.Solve(&c.member.LoadSets()[k])
-	if err != nil {
-		return fem.Summary{}, err
-	}
-	exacts, err := c.member.ExactLoadSets()
+	exacts, err := c.alone.exact(c)
 	if err != nil {
 		return fem.Summarize(s, nil), nil
 	}
