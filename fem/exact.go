@@ -486,14 +486,25 @@ func (e *Exact) layout(p odeProblem, points []keyPoint) exactLayout {
 func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys exactEquations) int {
 	nStretch := len(e.stretches)
 	row := 0
+	matrix, rhs := sys.parts()
+	// values holds a term's entries, one per constant (the beam has the
+	// most, four), cell a restraint's one.
+	var values [4]float64
+	var cell [1]float64
 	// term adds scale·y^(d) of stretch j at t to the row.
 	term := func(j, d int, t, scale float64) {
 		s := e.solution(p, j)
 		f := scale / integerPower(e.stretches[j].length, d)
-		for k := range p.order {
-			sys.add(row, l.firstCol[j]+k, f*s.basis(k, d, t))
+		v := values[:p.order]
+		if matrix {
+			for k := range v {
+				v[k] = f * s.basis(k, d, t)
+			}
 		}
-		sys.rhs(row, -f*s.particular(d, t))
+		sys.add(row, l.firstCol[j], v)
+		if rhs {
+			sys.rhs(row, -f*s.particular(d, t))
+		}
 	}
 	shear := func(j int) float64 {
 		if p.order == exactBeam.order {
@@ -560,7 +571,8 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 			first := next
 			for _, r := range kp.restraints {
 				if r.dof == d {
-					sys.add(row, l.heldCol[next], 1)
+					cell[0] = 1
+					sys.add(row, l.heldCol[next], cell[:])
 					next++
 				}
 			}
@@ -572,7 +584,8 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 					continue
 				}
 				motion(side, i, t, 1)
-				sys.add(row, l.heldCol[q], r.compliance)
+				cell[0] = r.compliance
+				sys.add(row, l.heldCol[q], cell[:])
 				sys.rhs(row, r.settlement)
 				row++
 				q++

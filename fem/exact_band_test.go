@@ -18,8 +18,14 @@ type denseEquations struct {
 	b []float64
 }
 
-func (s *denseEquations) add(row, col int, v float64) { s.a.Set(row, col, s.a.At(row, col)+v) }
-func (s *denseEquations) rhs(row int, v float64)      { s.b[row] += v }
+func (s *denseEquations) add(row, col int, v []float64) {
+	for k, x := range v {
+		s.a.Set(row, col+k, s.a.At(row, col+k)+x)
+	}
+}
+
+func (s *denseEquations) rhs(row int, v float64)    { s.b[row] += v }
+func (s *denseEquations) parts() (matrix, rhs bool) { return true, true }
 
 func (s *denseEquations) solve() ([]float64, error) {
 	n := len(s.b)

@@ -19,23 +19,27 @@ import (
 // factorizes it once, and Solve answers any load set on the member's key
 // points (load cases, unit loads) with one substitution each.
 
-// exactEquations receives the equations row by row: add puts v into the
-// matrix at (row, col), rhs adds v to the right-hand side of row.
+// exactEquations receives the equations row by row: add adds v[k] to the
+// matrix at (row, col+k), rhs adds v to the right-hand side of row. parts
+// says which of the two it keeps: the assembly works out only those values
+// and passes zeros for a matrix no one reads.
 type exactEquations interface {
-	add(row, col int, v float64)
+	add(row, col int, v []float64)
 	rhs(row int, v float64)
+	parts() (matrix, rhs bool)
 }
 
 // bandShape records the band an assembly touches: a dry run gives the
 // widths before the matrix is allocated.
 type bandShape struct{ lower, upper int }
 
-func (s *bandShape) add(row, col int, _ float64) {
+func (s *bandShape) add(row, col int, v []float64) {
 	s.lower = max(s.lower, row-col)
-	s.upper = max(s.upper, col-row)
+	s.upper = max(s.upper, col+len(v)-1-row)
 }
 
-func (s *bandShape) rhs(int, float64) {}
+func (s *bandShape) rhs(int, float64)          {}
+func (s *bandShape) parts() (matrix, rhs bool) { return false, false }
 
 // matrixEquations keeps the matrix of the equations, rhsEquations their
 // right-hand side.
@@ -44,10 +48,17 @@ type (
 	rhsEquations    struct{ b []float64 }
 )
 
-func (s *matrixEquations) add(row, col int, v float64) { s.a.Add(row, col, v) }
-func (s *matrixEquations) rhs(int, float64)            {}
-func (s *rhsEquations) add(int, int, float64)          {}
-func (s *rhsEquations) rhs(row int, v float64)         { s.b[row] += v }
+func (s *matrixEquations) add(row, col int, v []float64) {
+	for k, x := range v {
+		s.a.Add(row, col+k, x)
+	}
+}
+
+func (s *matrixEquations) rhs(int, float64)          {}
+func (s *matrixEquations) parts() (matrix, rhs bool) { return true, false }
+func (s *rhsEquations) add(int, int, []float64)      {}
+func (s *rhsEquations) rhs(row int, v float64)       { s.b[row] += v }
+func (s *rhsEquations) parts() (matrix, rhs bool)    { return false, true }
 
 // equilibrationPasses is the number of Ruiz passes at most: each brings
 // every row and column maximum closer to 1 (Ruiz 2001, converges linearly
