@@ -342,14 +342,12 @@ func (e *Exact) finite() bool {
 			}
 		}
 	}
-	for _, s := range e.stretches {
-		for _, t := range []float64{0, 0.5, 1} {
-			side := Right
-			if t == 1 {
-				side = Left
-			}
-			f := e.At(s.start+t*s.length, side)
-			for _, v := range []float64{f.AxialDisplacement, f.Deflection, f.Rotation, f.AxialForce,
+	// Each stretch is read directly, not through At's search for it.
+	var f Fields
+	for j := range e.stretches {
+		for _, t := range [3]float64{0, 0.5, 1} {
+			e.stretches[j].fields(t, &f)
+			for _, v := range [...]float64{f.AxialDisplacement, f.Deflection, f.Rotation, f.AxialForce,
 				f.ShearForce, f.BendingMoment, f.AxialStress, f.BendingStress, f.CombinedStress} {
 				if !isFinite(v) {
 					return false
