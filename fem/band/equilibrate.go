@@ -38,10 +38,7 @@ func Equilibrate(a *General, passes int) (rowScale, colScale []float64) {
 				continue
 			}
 			row := a.row(i)
-			big := 0.0
-			for _, v := range row {
-				big = larger(big, v)
-			}
+			big := largestMagnitude(row)
 			f := 1.0
 			if big > 0 {
 				f = inverseRoot(big)
@@ -63,10 +60,11 @@ func Equilibrate(a *General, passes int) (rowScale, colScale []float64) {
 				continue
 			}
 			p, count, step := a.column(j)
-			big := 0.0
+			var bits uint64
 			for q, c := p, count; c > 0; q, c = q+step, c-1 {
-				big = larger(big, a.Data[q])
+				bits = max(bits, magnitudeBits(a.Data[q]))
 			}
+			big := math.Float64frombits(bits)
 			f := 1.0
 			if big > 0 {
 				f = inverseRoot(big)
@@ -114,13 +112,16 @@ func inverseRoot(big float64) float64 {
 	return math.Ldexp(1, -(e >> 1))
 }
 
-// larger is the larger of big and |v|, or NaN when v is NaN: a plain
-// comparison, cheaper than the built-in max's care for signed zeros.
-func larger(big, v float64) float64 {
-	if a := math.Abs(v); a > big {
-		return a
-	} else if a != a {
-		return a
+// largestMagnitude is the largest |x| in v, NaN when v holds a NaN.
+func largestMagnitude(v []float64) float64 {
+	var bits uint64
+	for _, x := range v {
+		bits = max(bits, magnitudeBits(x))
 	}
-	return big
+	return math.Float64frombits(bits)
 }
+
+// magnitudeBits are the bits of |x|: magnitudes order as these do, and a
+// NaN's lie above every number's, so the largest of them is the largest
+// magnitude or a NaN, in integer comparisons cheaper than float ones.
+func magnitudeBits(x float64) uint64 { return math.Float64bits(x) &^ (1 << 63) }

@@ -159,7 +159,7 @@ func fullPasses(a *General, passes int) (rowScale, colScale []float64) {
 			lo, hi := band(i)
 			big := 0.0
 			for j := lo; j <= hi; j++ {
-				big = larger(big, a.At(i, j))
+				big = math.Max(big, math.Abs(a.At(i, j)))
 			}
 			if big > 0 {
 				f := inverseRoot(big)
@@ -174,7 +174,7 @@ func fullPasses(a *General, passes int) (rowScale, colScale []float64) {
 			lo, hi := max(0, j-a.KU), min(n-1, j+a.KL)
 			big := 0.0
 			for i := lo; i <= hi; i++ {
-				big = larger(big, a.At(i, j))
+				big = math.Max(big, math.Abs(a.At(i, j)))
 			}
 			if big > 0 {
 				f := inverseRoot(big)
