@@ -74,17 +74,6 @@ func (a *General) column(j int) (first, count, step int) {
 	return lo*s + j - lo + a.KL, hi - lo, s - 1
 }
 
-// columnMax returns the largest magnitude in column j, NaN if the column
-// holds a NaN.
-func (a *General) columnMax(j int) float64 {
-	p, count, step := a.column(j)
-	big := 0.0
-	for ; count > 0; p, count = p+step, count-1 {
-		big = max(big, math.Abs(a.Data[p]))
-	}
-	return big
-}
-
 // Norm1 returns the 1-norm of A, its largest column sum of magnitudes.
 func (a *General) Norm1() float64 {
 	norm := 0.0

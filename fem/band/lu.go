@@ -49,6 +49,8 @@ type LU struct {
 	valid bool
 	// work is scratch for the condition estimate.
 	work [2][]float64
+	// scale is the largest magnitude in each column of A.
+	scale []float64
 }
 
 // Factorize computes the factorization of a, which it does not modify. At
@@ -68,13 +70,20 @@ func (f *LU) Factorize(a *General) error {
 		return errors.New("band: band matrix storage is smaller than its size")
 	}
 	f.n, f.kl, f.ku = n, kl, ku
-	f.f, f.pivots = resized(f.f, n*s), resized(f.pivots, n)
-	d, piv := f.f, f.pivots
-	// The band of every row, and zeros in its fill, whatever a's fill holds.
+	f.f, f.pivots, f.scale = resized(f.f, n*s), resized(f.pivots, n), resized(f.scale, n)
+	d, piv, scale := f.f, f.pivots, f.scale
+	// The band of every row, and zeros in its fill, whatever a's fill
+	// holds; the columns' largest magnitudes gathered row by row, in
+	// memory's order.
 	w := kl + ku + 1
+	clear(scale)
 	for i := range n {
 		copy(d[i*s:i*s+w], a.Data[i*s:i*s+w])
 		clear(d[i*s+w : i*s+s])
+		cols := scale[max(0, i-kl):]
+		for c, v := range a.row(i) {
+			cols[c] = max(cols[c], math.Abs(v))
+		}
 	}
 	// ju is the last column the rows of U so far reach (dgbtf2's JU): rows
 	// below need no update right of it.
@@ -89,8 +98,8 @@ func (f *LU) Factorize(a *General) error {
 			}
 		}
 		// A NaN compares false and an overflow is infinite: both refused.
-		if scale := a.columnMax(i); !(best > luTolerance*scale) || best > math.MaxFloat64 {
-			return &SingularError{Column: i, Pivot: d[p*s+kl-(p-i)], Scale: scale}
+		if !(best > luTolerance*scale[i]) || best > math.MaxFloat64 {
+			return &SingularError{Column: i, Pivot: d[p*s+kl-(p-i)], Scale: scale[i]}
 		}
 		piv[i] = p
 		ju = max(ju, min(p+ku, n-1))
@@ -148,13 +157,16 @@ func (f *LU) solve(x []float64) {
 	n, kl, s := f.n, f.kl, 2*f.kl+f.ku+1
 	d := f.f
 	// L⁻¹·P: the interchange and the multipliers of each step, in order.
+	// Going down column i of L, the place in d moves on by s−1 a row.
 	for i := range n {
 		if p := f.pivots[i]; p != i {
 			x[i], x[p] = x[p], x[i]
 		}
-		xi := x[i]
-		for r := 1; r <= min(kl, n-1-i); r++ {
-			x[i+r] -= d[(i+r)*s+kl-r] * xi
+		xi, q := x[i], i*s+kl
+		below := x[i+1 : i+1+min(kl, n-1-i)]
+		for r := range below {
+			q += s - 1
+			below[r] -= d[q] * xi
 		}
 	}
 	// U⁻¹, by rows from the bottom up.
@@ -190,9 +202,10 @@ func (f *LU) solveTransposed(x []float64) {
 	}
 	// Pᵀ·L⁻ᵀ: each step's multipliers, then its interchange, last step first.
 	for i := n - 1; i >= 0; i-- {
-		sum := x[i]
-		for r := 1; r <= min(kl, n-1-i); r++ {
-			sum -= d[(i+r)*s+kl-r] * x[i+r]
+		sum, q := x[i], i*s+kl
+		for _, v := range x[i+1 : i+1+min(kl, n-1-i)] {
+			q += s - 1
+			sum -= d[q] * v
 		}
 		x[i] = sum
 		if p := f.pivots[i]; p != i {
