@@ -48,11 +48,7 @@ type (
 	rhsEquations    struct{ b []float64 }
 )
 
-func (s *matrixEquations) add(row, col int, v []float64) {
-	for k, x := range v {
-		s.a.Add(row, col+k, x)
-	}
-}
+func (s *matrixEquations) add(row, col int, v []float64) { s.a.AddRow(row, col, v) }
 
 func (s *matrixEquations) rhs(int, float64)          {}
 func (s *matrixEquations) parts() (matrix, rhs bool) { return true, false }

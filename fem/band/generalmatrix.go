@@ -48,6 +48,21 @@ func (a *General) Set(i, j int, v float64) { a.Data[a.index(i, j)] = v }
 // Add adds v to A[i][j]; (i, j) must lie in the band, as for Set.
 func (a *General) Add(i, j int, v float64) { a.Data[a.index(i, j)] += v }
 
+// AddRow adds v[k] to A[i][j+k] for every k: a run of entries of row i,
+// all of which must lie in the band, as for Set. The run is contiguous in
+// Data, so its ends alone are checked.
+func (a *General) AddRow(i, j int, v []float64) {
+	if len(v) == 0 {
+		return
+	}
+	p := a.index(i, j)
+	a.index(i, j+len(v)-1)
+	row := a.Data[p : p+len(v)]
+	for k := range row {
+		row[k] += v[k]
+	}
+}
+
 // index is the place of A[i][j] in Data; it panics outside the band, where a
 // bare offset would write silently into another row or the fill.
 func (a *General) index(i, j int) int {
