@@ -201,29 +201,36 @@ type exactProblem struct {
 	factor exactFactor
 }
 
-func newExactStructure(p *Member) (*ExactStructure, error) {
+// newExactStructure sets up and factorizes the member's equations, and
+// solves them under the member's own loads, whose stretches and key points
+// the assembly needed anyway. Only a failed factorization returns no
+// structure.
+func newExactStructure(p *Member) (*ExactStructure, *Exact, error) {
 	es := &ExactStructure{model: &p.model, keys: p.keys}
-	template := es.blank(&p.loads)
-	points := template.keyPoints(&p.model, &p.loads)
+	own := es.blank(&p.loads)
+	points := own.keyPoints(&p.model, &p.loads)
 	odes := []odeProblem{exactBar, exactBeam}
 	if !p.bending {
 		odes = odes[:1] // a bar alone: w stays zero
 	}
 	for _, ode := range odes {
-		pr := exactProblem{ode: ode, layout: template.layout(ode, points)}
+		pr := exactProblem{ode: ode, layout: own.layout(ode, points)}
 		var shape bandShape
-		template.equations(ode, points, pr.layout, &shape)
+		own.equations(ode, points, pr.layout, &shape)
 		a := band.NewGeneral(pr.layout.unknowns, shape.lower, shape.upper)
-		if rows := template.equations(ode, points, pr.layout, &matrixEquations{a}); rows != pr.layout.unknowns {
-			return nil, fmt.Errorf("fem: exact solution assembled %d equations for %d unknowns", rows, pr.layout.unknowns)
+		if rows := own.equations(ode, points, pr.layout, &matrixEquations{a}); rows != pr.layout.unknowns {
+			return nil, nil, fmt.Errorf("fem: exact solution assembled %d equations for %d unknowns", rows, pr.layout.unknowns)
 		}
 		if err := pr.factor.factorize(a); err != nil {
-			return nil, err
+			return nil, nil, err
 		}
 		es.condition = max(es.condition, pr.factor.cond)
 		es.problems = append(es.problems, pr)
 	}
-	return es, nil
+	own.Condition = es.condition
+	// A structure whose own loads overflow still serves other load sets.
+	e, err := es.solve(own, points)
+	return es, e, err
 }
 
 // KeyPoints are the points loads must be gathered on for Solve. They are
@@ -238,7 +245,12 @@ func (es *ExactStructure) Solve(l *Loads) (*Exact, error) {
 		return nil, fmt.Errorf("fem: the loads were gathered for another member or other supports: gather them on ExactStructure.KeyPoints")
 	}
 	e := es.blank(l)
-	points := e.keyPoints(es.model, l)
+	return es.solve(e, e.keyPoints(es.model, l))
+}
+
+// solve finds the constants and reactions of e, blank (without constants)
+// for its loads, whose actions and restraints at the key points are points.
+func (es *ExactStructure) solve(e *Exact, points []keyPoint) (*Exact, error) {
 	for _, pr := range es.problems {
 		b := make([]float64, pr.layout.unknowns)
 		e.equations(pr.ode, points, pr.layout, &rhsEquations{b})
