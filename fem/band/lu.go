@@ -45,6 +45,12 @@ type LU struct {
 	f []float64
 	// pivots[i] is the row interchanged with row i at step i.
 	pivots []int
+	// reach[i] is how many places right of the diagonal row i of U holds
+	// up to its last nonzero: pivoting fills the KL places of fill only
+	// here and there, and the solves skip the zeros past it. Subtracting a
+	// zero product changes no number but −0, so they give the full width's
+	// answer to the bit, but perhaps for the sign of a zero.
+	reach []int
 	// valid says f holds a factorization to solve with.
 	valid bool
 	// work is scratch for the condition estimate.
@@ -70,7 +76,7 @@ func (f *LU) Factorize(a *General) error {
 		return errors.New("band: band matrix storage is smaller than its size")
 	}
 	f.n, f.kl, f.ku = n, kl, ku
-	f.f, f.pivots, f.scale = resized(f.f, n*s), resized(f.pivots, n), resized(f.scale, n)
+	f.f, f.pivots, f.reach, f.scale = resized(f.f, n*s), resized(f.pivots, n), resized(f.reach, n), resized(f.scale, n)
 	d, piv, scale := f.f, f.pivots, f.scale
 	// The band of every row, and zeros in its fill, whatever a's fill
 	// holds; the columns' largest magnitudes gathered row by row, in
@@ -112,6 +118,12 @@ func (f *LU) Factorize(a *General) error {
 			}
 		}
 		pivot, right := u[0], u[1:]
+		// Row i of U is final: no later step changes it.
+		m := len(right)
+		for m > 0 && right[m-1] == 0 {
+			m--
+		}
+		f.reach[i] = m
 		// Zero multipliers are not skipped: a NaN or an infinity right of
 		// the pivot then spreads down to a later pivot and is refused there.
 		for r := 1; r <= km; r++ {
@@ -170,10 +182,8 @@ func (f *LU) solve(x []float64) {
 		}
 	}
 	// U⁻¹, by rows from the bottom up.
-	w := kl + f.ku
 	for i := n - 1; i >= 0; i-- {
-		m := min(w, n-1-i)
-		u := d[i*s+kl+1 : i*s+kl+1+m]
+		u := d[i*s+kl+1 : i*s+kl+1+f.reach[i]]
 		rest := x[i+1 : i+1+len(u)]
 		sum := x[i]
 		for c, v := range u {
@@ -189,10 +199,8 @@ func (f *LU) solveTransposed(x []float64) {
 	n, kl, s := f.n, f.kl, 2*f.kl+f.ku+1
 	d := f.f
 	// U⁻ᵀ: the rows of U are the columns of Uᵀ.
-	w := kl + f.ku
 	for i := range n {
-		m := min(w, n-1-i)
-		u := d[i*s+kl+1 : i*s+kl+1+m]
+		u := d[i*s+kl+1 : i*s+kl+1+f.reach[i]]
 		rest := x[i+1 : i+1+len(u)]
 		xi := x[i] / d[i*s+kl]
 		x[i] = xi
