@@ -1,9 +1,6 @@
 package band
 
-import (
-	"fmt"
-	"math"
-)
+import "fmt"
 
 // General is an n×n band matrix with KL subdiagonals and KU superdiagonals,
 // not necessarily symmetric. It is stored by rows with room for the fill of
@@ -87,18 +84,4 @@ func (a *General) column(j int) (first, count, step int) {
 	s := a.Stride()
 	lo, hi := max(0, j-a.KU), min(a.N, j+a.KL+1)
 	return lo*s + j - lo + a.KL, hi - lo, s - 1
-}
-
-// Norm1 returns the 1-norm of A, its largest column sum of magnitudes.
-func (a *General) Norm1() float64 {
-	norm := 0.0
-	for j := range a.N {
-		p, count, step := a.column(j)
-		sum := 0.0
-		for ; count > 0; p, count = p+step, count-1 {
-			sum += math.Abs(a.Data[p])
-		}
-		norm = max(norm, sum)
-	}
-	return norm
 }

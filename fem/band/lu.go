@@ -55,8 +55,10 @@ type LU struct {
 	valid bool
 	// work is scratch for the condition estimate.
 	work [2][]float64
-	// scale is the largest magnitude in each column of A.
-	scale []float64
+	// scale is the largest magnitude in each column of A, colSum the sum
+	// of their magnitudes, and norm1 the largest sum, ‖A‖₁.
+	scale, colSum []float64
+	norm1         float64
 }
 
 // Factorize computes the factorization of a, which it does not modify. At
@@ -76,20 +78,29 @@ func (f *LU) Factorize(a *General) error {
 		return errors.New("band: band matrix storage is smaller than its size")
 	}
 	f.n, f.kl, f.ku = n, kl, ku
-	f.f, f.pivots, f.reach, f.scale = resized(f.f, n*s), resized(f.pivots, n), resized(f.reach, n), resized(f.scale, n)
+	f.f, f.pivots, f.reach = resized(f.f, n*s), resized(f.pivots, n), resized(f.reach, n)
+	f.scale, f.colSum = resized(f.scale, n), resized(f.colSum, n)
 	d, piv, scale := f.f, f.pivots, f.scale
 	// The band of every row, and zeros in its fill, whatever a's fill
-	// holds; the columns' largest magnitudes gathered row by row, in
+	// holds; the columns' largest magnitudes and their sums (down each
+	// column, as a walk down it would add them) gathered row by row, in
 	// memory's order.
 	w := kl + ku + 1
 	clear(scale)
+	clear(f.colSum)
 	for i := range n {
 		copy(d[i*s:i*s+w], a.Data[i*s:i*s+w])
 		clear(d[i*s+w : i*s+s])
-		cols := scale[max(0, i-kl):]
+		first := max(0, i-kl)
+		cols, sums := scale[first:], f.colSum[first:]
 		for c, v := range a.row(i) {
 			cols[c] = max(cols[c], math.Abs(v))
+			sums[c] += math.Abs(v)
 		}
+	}
+	f.norm1 = 0
+	for _, sum := range f.colSum {
+		f.norm1 = max(f.norm1, sum)
 	}
 	// ju is the last column the rows of U so far reach (dgbtf2's JU): rows
 	// below need no update right of it.
