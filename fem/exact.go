@@ -503,18 +503,20 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 	var cell [1]float64
 	// term adds scale·y^(d) of stretch j at t to the row.
 	term := func(j, d int, t, scale float64) {
-		s := e.solution(p, j)
-		f := scale / integerPower(e.stretches[j].length, d)
 		v := values[:p.order]
-		if matrix {
-			for k := range v {
-				v[k] = f * s.basis(k, d, t)
+		if matrix || rhs {
+			s := e.solution(p, j)
+			f := scale / integerPower(e.stretches[j].length, d)
+			if matrix {
+				for k := range v {
+					v[k] = f * s.basis(k, d, t)
+				}
+			}
+			if rhs {
+				sys.rhs(row, -f*s.particular(d, t))
 			}
 		}
 		sys.add(row, l.firstCol[j], v)
-		if rhs {
-			sys.rhs(row, -f*s.particular(d, t))
-		}
 	}
 	shear := func(j int) float64 {
 		if p.order == exactBeam.order {
