@@ -86,10 +86,32 @@ type stretchSolution struct {
 // polynomial reports whether the solution is a polynomial in t.
 func (s *stretchSolution) polynomial() bool { return s.ground.order == 0 }
 
+// monomialEnds[e][d][k] is the d-th derivative of t^k at the end t = e of
+// a stretch, for the terms (up to t⁵) and derivatives (up to the third) the
+// equations take there, several times for every key point.
+var monomialEnds = func() (v [2][4][6]float64) {
+	for e := range v {
+		for d := range v[e] {
+			for k := range v[e][d] {
+				v[e][d][k] = monomialDerivative(k, d, float64(e))
+			}
+		}
+	}
+	return v
+}()
+
+// monomial is monomialDerivative(k, d, t), from monomialEnds at the ends.
+func monomial(k, d int, t float64) float64 {
+	if (t == 0 || t == 1) && d < 4 && k < 6 {
+		return monomialEnds[int(t)][d][k]
+	}
+	return monomialDerivative(k, d, t)
+}
+
 // basis is the d-th derivative in t of the k-th homogeneous solution at t.
 func (s *stretchSolution) basis(k, d int, t float64) float64 {
 	if s.polynomial() {
-		return monomialDerivative(k, d, t)
+		return monomial(k, d, t)
 	}
 	return s.ground.derivative(k, d, t)
 }
@@ -107,7 +129,7 @@ func (s *stretchSolution) particular(d int, t float64) float64 {
 	}
 	v := 0.0
 	for k := s.order; k < len(s.coeff); k++ {
-		v += s.coeff[k] * monomialDerivative(k, d, t)
+		v += s.coeff[k] * monomial(k, d, t)
 	}
 	return v
 }

@@ -22,3 +22,18 @@ func TestIntegerPower(t *testing.T) {
 		}
 	}
 }
+
+// monomial reads the ends of a stretch from a table: it must give
+// monomialDerivative's values to the bit there, and elsewhere, and for
+// terms and derivatives the table does not hold.
+func TestMonomial(t *testing.T) {
+	for _, x := range []float64{0, 1, 0.5, 0.3, -1, 2} {
+		for k := range 8 {
+			for d := range 6 {
+				if got, want := monomial(k, d, x), monomialDerivative(k, d, x); math.Float64bits(got) != math.Float64bits(want) {
+					t.Errorf("monomial(%d, %d, %g) = %.17g, monomialDerivative gives %.17g", k, d, x, got, want)
+				}
+			}
+		}
+	}
+}
