@@ -235,23 +235,26 @@ func newExactStructure(p *Member) (*ExactStructure, *Exact, error) {
 	if !p.bending {
 		odes = odes[:1] // a bar alone: w stays zero
 	}
+	// The own loads' right-hand sides come with the matrices.
+	var rhs [][]float64
 	for _, ode := range odes {
 		pr := exactProblem{ode: ode, layout: own.layout(ode, points)}
 		var shape bandShape
 		own.equations(ode, points, pr.layout, &shape)
-		a := band.NewGeneral(pr.layout.unknowns, shape.lower, shape.upper)
-		if rows := own.equations(ode, points, pr.layout, &matrixEquations{a}); rows != pr.layout.unknowns {
+		sys := systemEquations{band.NewGeneral(pr.layout.unknowns, shape.lower, shape.upper), make([]float64, pr.layout.unknowns)}
+		if rows := own.equations(ode, points, pr.layout, &sys); rows != pr.layout.unknowns {
 			return nil, nil, fmt.Errorf("fem: exact solution assembled %d equations for %d unknowns", rows, pr.layout.unknowns)
 		}
-		if err := pr.factor.factorize(a); err != nil {
+		if err := pr.factor.factorize(sys.a); err != nil {
 			return nil, nil, err
 		}
 		es.condition = max(es.condition, pr.factor.cond)
 		es.problems = append(es.problems, pr)
+		rhs = append(rhs, sys.b)
 	}
 	own.Condition = es.condition
 	// A structure whose own loads overflow still serves other load sets.
-	e, err := es.solve(own, points)
+	e, err := es.solve(own, points, rhs)
 	return es, e, err
 }
 
@@ -267,15 +270,22 @@ func (es *ExactStructure) Solve(l *Loads) (*Exact, error) {
 		return nil, fmt.Errorf("fem: the loads were gathered for another member or other supports: gather them on ExactStructure.KeyPoints")
 	}
 	e := es.blank(l)
-	return es.solve(e, e.keyPoints(es.model, l))
+	return es.solve(e, e.keyPoints(es.model, l), nil)
 }
 
 // solve finds the constants and reactions of e, blank (without constants)
 // for its loads, whose actions and restraints at the key points are points.
-func (es *ExactStructure) solve(e *Exact, points []keyPoint) (*Exact, error) {
-	for _, pr := range es.problems {
-		b := make([]float64, pr.layout.unknowns)
-		e.equations(pr.ode, points, pr.layout, &rhsEquations{b})
+// rhs holds the problems' right-hand sides when they were assembled
+// already, or is nil.
+func (es *ExactStructure) solve(e *Exact, points []keyPoint, rhs [][]float64) (*Exact, error) {
+	for i, pr := range es.problems {
+		var b []float64
+		if rhs != nil {
+			b = rhs[i]
+		} else {
+			b = make([]float64, pr.layout.unknowns)
+			e.equations(pr.ode, points, pr.layout, &rhsEquations{b})
+		}
 		x, err := pr.factor.solve(b)
 		if err != nil {
 			return nil, err

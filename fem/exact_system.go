@@ -41,20 +41,22 @@ func (s *bandShape) add(row, col int, v []float64) {
 func (s *bandShape) rhs(int, float64)          {}
 func (s *bandShape) parts() (matrix, rhs bool) { return false, false }
 
-// matrixEquations keeps the matrix of the equations, rhsEquations their
-// right-hand side.
+// systemEquations keeps the matrix of the equations and their right-hand
+// side, rhsEquations the right-hand side alone.
 type (
-	matrixEquations struct{ a *band.General }
-	rhsEquations    struct{ b []float64 }
+	systemEquations struct {
+		a *band.General
+		b []float64
+	}
+	rhsEquations struct{ b []float64 }
 )
 
-func (s *matrixEquations) add(row, col int, v []float64) { s.a.AddRow(row, col, v) }
-
-func (s *matrixEquations) rhs(int, float64)          {}
-func (s *matrixEquations) parts() (matrix, rhs bool) { return true, false }
-func (s *rhsEquations) add(int, int, []float64)      {}
-func (s *rhsEquations) rhs(row int, v float64)       { s.b[row] += v }
-func (s *rhsEquations) parts() (matrix, rhs bool)    { return false, true }
+func (s *systemEquations) add(row, col int, v []float64) { s.a.AddRow(row, col, v) }
+func (s *systemEquations) rhs(row int, v float64)        { s.b[row] += v }
+func (s *systemEquations) parts() (matrix, rhs bool)     { return true, true }
+func (s *rhsEquations) add(int, int, []float64)          {}
+func (s *rhsEquations) rhs(row int, v float64)           { s.b[row] += v }
+func (s *rhsEquations) parts() (matrix, rhs bool)        { return false, true }
 
 // equilibrationPasses is the number of Ruiz passes at most: each brings
 // every row and column maximum closer to 1 (Ruiz 2001, converges linearly
