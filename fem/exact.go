@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"sort"
+	"sync"
 
 	"stave/fem/band"
 )
@@ -235,27 +236,46 @@ func newExactStructure(p *Member) (*ExactStructure, *Exact, error) {
 	if !p.bending {
 		odes = odes[:1] // a bar alone: w stays zero
 	}
-	// The own loads' right-hand sides come with the matrices.
-	var rhs [][]float64
-	for _, ode := range odes {
-		pr := exactProblem{ode: ode, layout: own.layout(ode, points)}
-		var shape bandShape
-		own.equations(ode, points, pr.layout, &shape)
-		sys := systemEquations{band.NewGeneral(pr.layout.unknowns, shape.lower, shape.upper), make([]float64, pr.layout.unknowns)}
-		if rows := own.equations(ode, points, pr.layout, &sys); rows != pr.layout.unknowns {
-			return nil, nil, fmt.Errorf("fem: exact solution assembled %d equations for %d unknowns", rows, pr.layout.unknowns)
-		}
-		if err := pr.factor.factorize(sys.a); err != nil {
+	// The problems share nothing but what they read: the bar's system is
+	// factorized beside the beam's, each on its own goroutine.
+	es.problems = make([]exactProblem, len(odes))
+	rhs, errs := make([][]float64, len(odes)), make([]error, len(odes))
+	var wg sync.WaitGroup
+	for i, ode := range odes {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			rhs[i], errs[i] = own.factorizeProblem(&es.problems[i], ode, points)
+		}()
+	}
+	wg.Wait()
+	for i, err := range errs {
+		if err != nil {
 			return nil, nil, err
 		}
-		es.condition = max(es.condition, pr.factor.cond)
-		es.problems = append(es.problems, pr)
-		rhs = append(rhs, sys.b)
+		es.condition = max(es.condition, es.problems[i].factor.cond)
 	}
 	own.Condition = es.condition
 	// A structure whose own loads overflow still serves other load sets.
 	e, err := es.solve(own, points, rhs)
 	return es, e, err
+}
+
+// factorizeProblem sets pr to problem ode of e's equations, assembled and
+// factorized, and returns the right-hand side of e's loads, assembled in
+// the same pass. points are e's key points.
+func (e *Exact) factorizeProblem(pr *exactProblem, ode odeProblem, points []keyPoint) ([]float64, error) {
+	*pr = exactProblem{ode: ode, layout: e.layout(ode, points)}
+	var shape bandShape
+	e.equations(ode, points, pr.layout, &shape)
+	sys := systemEquations{band.NewGeneral(pr.layout.unknowns, shape.lower, shape.upper), make([]float64, pr.layout.unknowns)}
+	if rows := e.equations(ode, points, pr.layout, &sys); rows != pr.layout.unknowns {
+		return nil, fmt.Errorf("fem: exact solution assembled %d equations for %d unknowns", rows, pr.layout.unknowns)
+	}
+	if err := pr.factor.factorize(sys.a); err != nil {
+		return nil, err
+	}
+	return sys.b, nil
 }
 
 // KeyPoints are the points loads must be gathered on for Solve. They are
