@@ -70,7 +70,16 @@ type LU struct {
 // column left after elimination, of length at most KL+1, is a column of the
 // Schur complement, whose inverse is a block of A⁻¹ permuted. A matrix with
 // a NaN or an infinite entry, or whose elimination overflows, is refused too.
-func (f *LU) Factorize(a *General) error {
+func (f *LU) Factorize(a *General) error { return f.factorize(a, false) }
+
+// FactorizeInPlace is Factorize working in a's own storage instead of a
+// copy: a.Data then holds the factorization, belongs to the receiver, and
+// is no matrix to read, change or factorize again. It spares a matrix too
+// large to copy cheaply, and Cond(a) still estimates a's condition.
+func (f *LU) FactorizeInPlace(a *General) error { return f.factorize(a, true) }
+
+// factorize is Factorize, in a.Data itself when inPlace.
+func (f *LU) factorize(a *General, inPlace bool) error {
 	n, kl, ku := a.N, a.KL, a.KU
 	s := a.Stride()
 	f.valid = false
@@ -78,25 +87,32 @@ func (f *LU) Factorize(a *General) error {
 		return errors.New("band: band matrix storage is smaller than its size")
 	}
 	f.n, f.kl, f.ku = n, kl, ku
-	f.f, f.pivots, f.reach = resized(f.f, n*s), resized(f.pivots, n), resized(f.reach, n)
+	f.pivots, f.reach = resized(f.pivots, n), resized(f.reach, n)
 	f.scale, f.colSum = resized(f.scale, n), resized(f.colSum, n)
+	if inPlace {
+		f.f = a.Data[:n*s]
+	} else {
+		f.f = resized(f.f, n*s)
+	}
 	d, piv, scale := f.f, f.pivots, f.scale
-	// The band of every row, and zeros in its fill, whatever a's fill
-	// holds; the columns' largest magnitudes and their sums (down each
-	// column, as a walk down it would add them) gathered row by row, in
-	// memory's order.
+	// The columns' largest magnitudes and their sums (down each column, as
+	// a walk down it would add them) gathered row by row, in memory's
+	// order, before the band of the row goes to d with zeros in its fill,
+	// whatever a's fill holds.
 	w := kl + ku + 1
 	clear(scale)
 	clear(f.colSum)
 	for i := range n {
-		copy(d[i*s:i*s+w], a.Data[i*s:i*s+w])
-		clear(d[i*s+w : i*s+s])
 		first := max(0, i-kl)
 		cols, sums := scale[first:], f.colSum[first:]
 		for c, v := range a.row(i) {
 			cols[c] = max(cols[c], math.Abs(v))
 			sums[c] += math.Abs(v)
 		}
+		if !inPlace {
+			copy(d[i*s:i*s+w], a.Data[i*s:i*s+w])
+		}
+		clear(d[i*s+w : i*s+s])
 	}
 	f.norm1 = 0
 	for _, sum := range f.colSum {

@@ -807,3 +807,64 @@ func TestLUSolvesSkipOnlyZeros(t *testing.T) {
 		})
 	}
 }
+
+// FactorizeInPlace is Factorize without the copy: the same factor,
+// interchanges, solves and condition estimate to the bit, the factor in
+// a's own storage, and the same refusal of a singular matrix.
+func TestLUFactorizeInPlace(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(61, 62))
+	singular := generalFrom(1, 1, [][]float64{{1, 2, 0}, {2, 4, 0}, {0, 1, 1}})
+	cases := []struct {
+		name string
+		a    *General
+	}{
+		{"dominant", bandCase{40, 2, 3, dominantRows}.matrix(rnd)},
+		{"mixed", bandCase{60, 6, 6, mixedRows}.matrix(rnd)},
+		{"shuffled", bandCase{50, 4, 5, shuffledRows}.matrix(rnd)},
+		{"one", bandCase{1, 0, 0, dominantRows}.matrix(rnd)},
+		{"singular", singular},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			var copied, inPlace LU
+			errCopied := copied.Factorize(c.a)
+			a := &General{N: c.a.N, KL: c.a.KL, KU: c.a.KU, Data: slices.Clone(c.a.Data)}
+			errInPlace := inPlace.FactorizeInPlace(a)
+			if fmt.Sprint(errCopied) != fmt.Sprint(errInPlace) {
+				t.Fatalf("Factorize: %v, in place: %v", errCopied, errInPlace)
+			}
+			if (errCopied != nil) != (c.name == "singular") {
+				t.Fatalf("Factorize: %v", errCopied)
+			}
+			if errCopied != nil {
+				return
+			}
+			if &inPlace.f[0] != &a.Data[0] {
+				t.Errorf("the factorization is not in a's storage")
+			}
+			same := func(x, y []float64) bool {
+				return slices.EqualFunc(x, y, func(u, v float64) bool { return math.Float64bits(u) == math.Float64bits(v) })
+			}
+			if !same(copied.f, inPlace.f) || !slices.Equal(copied.pivots, inPlace.pivots) {
+				t.Fatalf("the factors or interchanges differ")
+			}
+			b := make([]float64, c.a.N)
+			for i := range b {
+				b[i] = rnd.NormFloat64()
+			}
+			x, y := make([]float64, len(b)), make([]float64, len(b))
+			if err := copied.SolveTo(x, b); err != nil {
+				t.Fatal(err)
+			}
+			if err := inPlace.SolveTo(y, b); err != nil {
+				t.Fatal(err)
+			}
+			if !same(x, y) {
+				t.Errorf("solves differ: %v and %v", x, y)
+			}
+			if p, q := copied.Cond(c.a), inPlace.Cond(a); math.Float64bits(p) != math.Float64bits(q) {
+				t.Errorf("condition estimates %.17g and %.17g", p, q)
+			}
+		})
+	}
+}

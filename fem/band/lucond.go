@@ -4,7 +4,8 @@ import "math"
 
 // Cond estimates the 1-norm condition number ‖A‖₁·‖A⁻¹‖₁ of a, the matrix
 // that was factorized, as LAPACK's dgbcon does: ‖A‖₁ as Factorize found it
-// in a's band (a must not have changed since), ‖A⁻¹‖₁
+// in a's band (a must not have changed since; after FactorizeInPlace a's
+// order alone is read), ‖A⁻¹‖₁
 // by Hager's method with Higham's refinements (LAPACK's dlacn2; Higham,
 // Accuracy and Stability of Numerical Algorithms, §15.3, from memory), at
 // most a dozen solves with A and Aᵀ, so its cost is O(N·(KL+KU)). The
