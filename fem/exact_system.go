@@ -78,10 +78,10 @@ type exactFactor struct {
 // factorize equilibrates a (in place) by alternating square-root scaling of
 // rows and columns (Ruiz), so that equations in N and in m, and unknowns in
 // m and in N, meet on equal terms, and factorizes it by band LU with
-// partial pivoting.
+// partial pivoting, in a's storage: a is used up.
 func (f *exactFactor) factorize(a *band.General) error {
 	f.rowScale, f.colScale = band.Equilibrate(a, equilibrationPasses)
-	if err := f.lu.Factorize(a); err != nil {
+	if err := f.lu.FactorizeInPlace(a); err != nil {
 		var se *band.SingularError
 		if errors.As(err, &se) {
 			return errExactSingular(math.Inf(1))
