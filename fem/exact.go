@@ -117,6 +117,18 @@ func (s *stretchSolution) basis(k, d int, t float64) float64 {
 	return s.ground.derivative(k, d, t)
 }
 
+// bases sets v[k] to basis(k, d, t) for every k < len(v), at a
+// polynomial stretch's ends by copying monomialEnds.
+func (s *stretchSolution) bases(d int, t float64, v []float64) {
+	if s.polynomial() && (t == 0 || t == 1) && d < 4 && len(v) <= 6 {
+		copy(v, monomialEnds[int(t)][d][:])
+		return
+	}
+	for k := range v {
+		v[k] = s.basis(k, d, t)
+	}
+}
+
 // particular is the d-th derivative in t of the particular solution at t.
 func (s *stretchSolution) particular(d int, t float64) float64 {
 	if !s.polynomial() {
@@ -237,15 +249,16 @@ func newExactStructure(p *Member) (*ExactStructure, *Exact, error) {
 		odes = odes[:1] // a bar alone: w stays zero
 	}
 	// The problems share nothing but what they read: the bar's system is
-	// factorized beside the beam's, each on its own goroutine.
+	// set up, factorized and solved beside the beam's, each on its own
+	// goroutine, each storing its own constants and reactions.
 	es.problems = make([]exactProblem, len(odes))
-	rhs, errs := make([][]float64, len(odes)), make([]error, len(odes))
+	errs := make([]error, len(odes))
 	var wg sync.WaitGroup
 	for i, ode := range odes {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			rhs[i], errs[i] = own.factorizeProblem(&es.problems[i], ode, points)
+			errs[i] = own.factorizeProblem(&es.problems[i], ode, points)
 		}()
 	}
 	wg.Wait()
@@ -257,25 +270,37 @@ func newExactStructure(p *Member) (*ExactStructure, *Exact, error) {
 	}
 	own.Condition = es.condition
 	// A structure whose own loads overflow still serves other load sets.
-	e, err := es.solve(own, points, rhs)
+	e, err := own.finish(points)
 	return es, e, err
 }
 
 // factorizeProblem sets pr to problem ode of e's equations, assembled and
-// factorized, and returns the right-hand side of e's loads, assembled in
-// the same pass. points are e's key points.
-func (e *Exact) factorizeProblem(pr *exactProblem, ode odeProblem, points []keyPoint) ([]float64, error) {
+// factorized, and stores in e the problem's constants and reactions under
+// e's loads, whose right-hand side comes in the same pass as the matrix.
+// points are e's key points.
+func (e *Exact) factorizeProblem(pr *exactProblem, ode odeProblem, points []keyPoint) error {
 	*pr = exactProblem{ode: ode, layout: e.layout(ode, points)}
 	var shape bandShape
 	e.equations(ode, points, pr.layout, &shape)
 	sys := systemEquations{band.NewGeneral(pr.layout.unknowns, shape.lower, shape.upper), make([]float64, pr.layout.unknowns)}
 	if rows := e.equations(ode, points, pr.layout, &sys); rows != pr.layout.unknowns {
-		return nil, fmt.Errorf("fem: exact solution assembled %d equations for %d unknowns", rows, pr.layout.unknowns)
+		return fmt.Errorf("fem: exact solution assembled %d equations for %d unknowns", rows, pr.layout.unknowns)
 	}
 	if err := pr.factor.factorize(sys.a); err != nil {
-		return nil, err
+		return err
 	}
-	return sys.b, nil
+	return pr.solveInto(e, sys.b)
+}
+
+// solveInto stores in e the problem's constants and reactions for the
+// right-hand side b, which it uses up.
+func (pr *exactProblem) solveInto(e *Exact, b []float64) error {
+	x, err := pr.factor.solve(b)
+	if err != nil {
+		return err
+	}
+	e.store(pr.ode, pr.layout, x)
+	return nil
 }
 
 // KeyPoints are the points loads must be gathered on for Solve. They are
@@ -290,28 +315,21 @@ func (es *ExactStructure) Solve(l *Loads) (*Exact, error) {
 		return nil, fmt.Errorf("fem: the loads were gathered for another member or other supports: gather them on ExactStructure.KeyPoints")
 	}
 	e := es.blank(l)
-	return es.solve(e, e.keyPoints(es.model, l), nil)
-}
-
-// solve finds the constants and reactions of e, blank (without constants)
-// for its loads, whose actions and restraints at the key points are points.
-// rhs holds the problems' right-hand sides when they were assembled
-// already, or is nil.
-func (es *ExactStructure) solve(e *Exact, points []keyPoint, rhs [][]float64) (*Exact, error) {
-	for i, pr := range es.problems {
-		var b []float64
-		if rhs != nil {
-			b = rhs[i]
-		} else {
-			b = make([]float64, pr.layout.unknowns)
-			e.equations(pr.ode, points, pr.layout, &rhsEquations{b})
-		}
-		x, err := pr.factor.solve(b)
-		if err != nil {
+	points := e.keyPoints(es.model, l)
+	for _, pr := range es.problems {
+		b := make([]float64, pr.layout.unknowns)
+		e.equations(pr.ode, points, pr.layout, &rhsEquations{b})
+		if err := pr.solveInto(e, b); err != nil {
 			return nil, err
 		}
-		e.store(pr.ode, pr.layout, x)
 	}
+	return e.finish(points)
+}
+
+// finish checks that e, with every problem's constants and reactions,
+// holds finite numbers, and takes the reactions of the stretches clamped at
+// both ends from statics. points are e's key points.
+func (e *Exact) finish(points []keyPoint) (*Exact, error) {
 	if !e.finite() {
 		return nil, errNotFinite
 	}
@@ -560,8 +578,9 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 			s := e.solution(p, j)
 			f := scale / integerPower(e.stretches[j].length, d)
 			if matrix {
+				s.bases(d, t, v)
 				for k := range v {
-					v[k] = f * s.basis(k, d, t)
+					v[k] *= f
 				}
 			}
 			if rhs {
