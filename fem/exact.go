@@ -1,6 +1,8 @@
 package fem
 
 import (
+	"cmp"
+	"errors"
 	"fmt"
 	"math"
 	"sort"
@@ -250,46 +252,65 @@ func newExactStructure(p *Member) (*ExactStructure, *Exact, error) {
 	}
 	// The problems share nothing but what they read: the bar's system is
 	// set up, factorized and solved beside the beam's, each on its own
-	// goroutine, each storing its own constants and reactions.
+	// goroutine, each storing its own constants and reactions; each
+	// condition estimate runs beside its problem's solve and the checks of
+	// the solution, and is waited for before either is trusted.
 	es.problems = make([]exactProblem, len(odes))
-	errs := make([]error, len(odes))
-	var wg sync.WaitGroup
+	errs, condErrs := make([]error, len(odes)), make([]error, len(odes))
+	var solved, estimated sync.WaitGroup
 	for i, ode := range odes {
-		wg.Add(1)
+		solved.Add(1)
 		go func() {
-			defer wg.Done()
-			errs[i] = own.factorizeProblem(&es.problems[i], ode, points)
+			defer solved.Done()
+			pr := &es.problems[i]
+			var a *band.General
+			var b []float64
+			if a, b, errs[i] = own.factorizeProblem(pr, ode, points); errs[i] != nil {
+				return
+			}
+			estimated.Add(1)
+			go func() {
+				defer estimated.Done()
+				condErrs[i] = pr.factor.estimate(a)
+			}()
+			errs[i] = pr.solveInto(own, b)
 		}()
 	}
-	wg.Wait()
-	for i, err := range errs {
-		if err != nil {
-			return nil, nil, err
+	solved.Wait()
+	var e *Exact
+	var err error
+	if errors.Join(errs...) == nil {
+		e, err = own.finish(points)
+	}
+	estimated.Wait()
+	// The problems' errors in order, as if one after the other.
+	for i := range odes {
+		if failed := cmp.Or(errs[i], condErrs[i]); failed != nil {
+			return nil, nil, failed
 		}
 		es.condition = max(es.condition, es.problems[i].factor.cond)
 	}
 	own.Condition = es.condition
 	// A structure whose own loads overflow still serves other load sets.
-	e, err := own.finish(points)
 	return es, e, err
 }
 
 // factorizeProblem sets pr to problem ode of e's equations, assembled and
-// factorized, and stores in e the problem's constants and reactions under
-// e's loads, whose right-hand side comes in the same pass as the matrix.
-// points are e's key points.
-func (e *Exact) factorizeProblem(pr *exactProblem, ode odeProblem, points []keyPoint) error {
+// factorized, and returns the matrix it used up (for the condition
+// estimate) and the right-hand side of e's loads, assembled in the same
+// pass. points are e's key points.
+func (e *Exact) factorizeProblem(pr *exactProblem, ode odeProblem, points []keyPoint) (*band.General, []float64, error) {
 	*pr = exactProblem{ode: ode, layout: e.layout(ode, points)}
 	var shape bandShape
 	e.equations(ode, points, pr.layout, &shape)
 	sys := systemEquations{band.NewGeneral(pr.layout.unknowns, shape.lower, shape.upper), make([]float64, pr.layout.unknowns)}
 	if rows := e.equations(ode, points, pr.layout, &sys); rows != pr.layout.unknowns {
-		return fmt.Errorf("fem: exact solution assembled %d equations for %d unknowns", rows, pr.layout.unknowns)
+		return nil, nil, fmt.Errorf("fem: exact solution assembled %d equations for %d unknowns", rows, pr.layout.unknowns)
 	}
 	if err := pr.factor.factorize(sys.a); err != nil {
-		return err
+		return nil, nil, err
 	}
-	return pr.solveInto(e, sys.b)
+	return sys.a, sys.b, nil
 }
 
 // solveInto stores in e the problem's constants and reactions for the

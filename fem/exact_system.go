@@ -78,7 +78,8 @@ type exactFactor struct {
 // factorize equilibrates a (in place) by alternating square-root scaling of
 // rows and columns (Ruiz), so that equations in N and in m, and unknowns in
 // m and in N, meet on equal terms, and factorizes it by band LU with
-// partial pivoting, in a's storage: a is used up.
+// partial pivoting, in a's storage: a is used up. The factorization is not
+// to be trusted before estimate accepts it.
 func (f *exactFactor) factorize(a *band.General) error {
 	f.rowScale, f.colScale = band.Equilibrate(a, equilibrationPasses)
 	if err := f.lu.FactorizeInPlace(a); err != nil {
@@ -88,6 +89,13 @@ func (f *exactFactor) factorize(a *band.General) error {
 		}
 		return fmt.Errorf("the exact solution cannot be found: %v", err)
 	}
+	return nil
+}
+
+// estimate sets the condition estimate of the equilibrated system a that
+// factorize used up, and refuses it above maxCondition. It only reads the
+// factorization, so solves may run beside it.
+func (f *exactFactor) estimate(a *band.General) error {
 	f.cond = f.lu.Cond(a)
 	if !(f.cond < maxCondition) {
 		return errExactSingular(f.cond)
