@@ -240,8 +240,8 @@ type exactProblem struct {
 
 // newExactStructure sets up and factorizes the member's equations, and
 // solves them under the member's own loads, whose stretches and key points
-// the assembly needed anyway. Only a failed factorization returns no
-// structure.
+// the assembly needed anyway. Only a factorization that fails, or that the
+// condition estimate refuses, returns no structure.
 func newExactStructure(p *Member) (*ExactStructure, *Exact, error) {
 	es := &ExactStructure{model: &p.model, keys: p.keys}
 	own := es.blank(&p.loads)
