@@ -16,7 +16,7 @@ import (
 // section is constant and every load is linear in x, so EA·u″ = −p makes the
 // axial displacement a cubic and EI·w⁗ = q makes the deflection a quintic.
 // SolveExact finds the integration constants and the support reactions from
-// one small dense system per problem (bar, beam) whose size grows with the
+// one banded system per problem (bar, beam) whose size grows with the
 // number of stretches and supports, not with any mesh.
 type Exact struct {
 	// Condition bounds the round-off in the integration constants and the
