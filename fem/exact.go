@@ -1,9 +1,12 @@
 package fem
 
 import (
+	"cmp"
+	"errors"
 	"fmt"
 	"math"
 	"sort"
+	"sync"
 
 	"stave/fem/band"
 )
@@ -13,7 +16,7 @@ import (
 // section is constant and every load is linear in x, so EA·u″ = −p makes the
 // axial displacement a cubic and EI·w⁗ = q makes the deflection a quintic.
 // SolveExact finds the integration constants and the support reactions from
-// one small dense system per problem (bar, beam) whose size grows with the
+// one banded system per problem (bar, beam) whose size grows with the
 // number of stretches and supports, not with any mesh.
 type Exact struct {
 	// Condition bounds the round-off in the integration constants and the
@@ -86,12 +89,46 @@ type stretchSolution struct {
 // polynomial reports whether the solution is a polynomial in t.
 func (s *stretchSolution) polynomial() bool { return s.ground.order == 0 }
 
+// monomialEnds[e][d][k] is the d-th derivative of t^k at the end t = e of
+// a stretch, for the terms (up to t⁵) and derivatives (up to the third) the
+// equations take there, several times for every key point.
+var monomialEnds = func() (v [2][4][6]float64) {
+	for e := range v {
+		for d := range v[e] {
+			for k := range v[e][d] {
+				v[e][d][k] = monomialDerivative(k, d, float64(e))
+			}
+		}
+	}
+	return v
+}()
+
+// monomial is monomialDerivative(k, d, t), from monomialEnds at the ends.
+func monomial(k, d int, t float64) float64 {
+	if (t == 0 || t == 1) && d < 4 && k < 6 {
+		return monomialEnds[int(t)][d][k]
+	}
+	return monomialDerivative(k, d, t)
+}
+
 // basis is the d-th derivative in t of the k-th homogeneous solution at t.
 func (s *stretchSolution) basis(k, d int, t float64) float64 {
 	if s.polynomial() {
-		return monomialDerivative(k, d, t)
+		return monomial(k, d, t)
 	}
 	return s.ground.derivative(k, d, t)
+}
+
+// bases sets v[k] to basis(k, d, t) for every k < len(v), at a
+// polynomial stretch's ends by copying monomialEnds.
+func (s *stretchSolution) bases(d int, t float64, v []float64) {
+	if s.polynomial() && (t == 0 || t == 1) && d < 4 && len(v) <= 6 {
+		copy(v, monomialEnds[int(t)][d][:])
+		return
+	}
+	for k := range v {
+		v[k] = s.basis(k, d, t)
+	}
 }
 
 // particular is the d-th derivative in t of the particular solution at t.
@@ -107,7 +144,7 @@ func (s *stretchSolution) particular(d int, t float64) float64 {
 	}
 	v := 0.0
 	for k := s.order; k < len(s.coeff); k++ {
-		v += s.coeff[k] * monomialDerivative(k, d, t)
+		v += s.coeff[k] * monomial(k, d, t)
 	}
 	return v
 }
@@ -201,29 +238,90 @@ type exactProblem struct {
 	factor exactFactor
 }
 
-func newExactStructure(p *Member) (*ExactStructure, error) {
+// newExactStructure sets up and factorizes the member's equations, and
+// solves them under the member's own loads, whose stretches and key points
+// the assembly needed anyway. Only a factorization that fails, or that the
+// condition estimate refuses, returns no structure.
+func newExactStructure(p *Member) (*ExactStructure, *Exact, error) {
 	es := &ExactStructure{model: &p.model, keys: p.keys}
-	template := es.blank(&p.loads)
-	points := template.keyPoints(&p.model, &p.loads)
+	own := es.blank(&p.loads)
+	points := own.keyPoints(&p.model, &p.loads)
 	odes := []odeProblem{exactBar, exactBeam}
 	if !p.bending {
 		odes = odes[:1] // a bar alone: w stays zero
 	}
-	for _, ode := range odes {
-		pr := exactProblem{ode: ode, layout: template.layout(ode, points)}
-		var shape bandShape
-		template.equations(ode, points, pr.layout, &shape)
-		a := band.NewGeneral(pr.layout.unknowns, shape.lower, shape.upper)
-		if rows := template.equations(ode, points, pr.layout, &matrixEquations{a}); rows != pr.layout.unknowns {
-			return nil, fmt.Errorf("fem: exact solution assembled %d equations for %d unknowns", rows, pr.layout.unknowns)
-		}
-		if err := pr.factor.factorize(a); err != nil {
-			return nil, err
-		}
-		es.condition = max(es.condition, pr.factor.cond)
-		es.problems = append(es.problems, pr)
+	// The problems share nothing but what they read: the bar's system is
+	// set up, factorized and solved beside the beam's, each on its own
+	// goroutine, each storing its own constants and reactions; each
+	// condition estimate runs beside its problem's solve and the checks of
+	// the solution, and is waited for before either is trusted.
+	es.problems = make([]exactProblem, len(odes))
+	errs, condErrs := make([]error, len(odes)), make([]error, len(odes))
+	var solved, estimated sync.WaitGroup
+	for i, ode := range odes {
+		solved.Add(1)
+		go func() {
+			defer solved.Done()
+			pr := &es.problems[i]
+			var a *band.General
+			var b []float64
+			if a, b, errs[i] = own.factorizeProblem(pr, ode, points); errs[i] != nil {
+				return
+			}
+			estimated.Add(1)
+			go func() {
+				defer estimated.Done()
+				condErrs[i] = pr.factor.estimate(a)
+			}()
+			errs[i] = pr.solveInto(own, b)
+		}()
 	}
-	return es, nil
+	solved.Wait()
+	var e *Exact
+	var err error
+	if errors.Join(errs...) == nil {
+		e, err = own.finish(points)
+	}
+	estimated.Wait()
+	// The problems' errors in order, as if one after the other.
+	for i := range odes {
+		if failed := cmp.Or(errs[i], condErrs[i]); failed != nil {
+			return nil, nil, failed
+		}
+		es.condition = max(es.condition, es.problems[i].factor.cond)
+	}
+	own.Condition = es.condition
+	// A structure whose own loads overflow still serves other load sets.
+	return es, e, err
+}
+
+// factorizeProblem sets pr to problem ode of e's equations, assembled and
+// factorized, and returns the matrix it used up (for the condition
+// estimate) and the right-hand side of e's loads, assembled in the same
+// pass. points are e's key points.
+func (e *Exact) factorizeProblem(pr *exactProblem, ode odeProblem, points []keyPoint) (*band.General, []float64, error) {
+	*pr = exactProblem{ode: ode, layout: e.layout(ode, points)}
+	var shape bandShape
+	e.equations(ode, points, pr.layout, &shape)
+	sys := systemEquations{band.NewGeneral(pr.layout.unknowns, shape.lower, shape.upper), make([]float64, pr.layout.unknowns)}
+	if rows := e.equations(ode, points, pr.layout, &sys); rows != pr.layout.unknowns {
+		return nil, nil, fmt.Errorf("fem: exact solution assembled %d equations for %d unknowns", rows, pr.layout.unknowns)
+	}
+	if err := pr.factor.factorize(sys.a); err != nil {
+		return nil, nil, err
+	}
+	return sys.a, sys.b, nil
+}
+
+// solveInto stores in e the problem's constants and reactions for the
+// right-hand side b, which it uses up.
+func (pr *exactProblem) solveInto(e *Exact, b []float64) error {
+	x, err := pr.factor.solve(b)
+	if err != nil {
+		return err
+	}
+	e.store(pr.ode, pr.layout, x)
+	return nil
 }
 
 // KeyPoints are the points loads must be gathered on for Solve. They are
@@ -242,12 +340,17 @@ func (es *ExactStructure) Solve(l *Loads) (*Exact, error) {
 	for _, pr := range es.problems {
 		b := make([]float64, pr.layout.unknowns)
 		e.equations(pr.ode, points, pr.layout, &rhsEquations{b})
-		x, err := pr.factor.solve(b)
-		if err != nil {
+		if err := pr.solveInto(e, b); err != nil {
 			return nil, err
 		}
-		e.store(pr.ode, pr.layout, x)
 	}
+	return e.finish(points)
+}
+
+// finish checks that e, with every problem's constants and reactions,
+// holds finite numbers, and takes the reactions of the stretches clamped at
+// both ends from statics. points are e's key points.
+func (e *Exact) finish(points []keyPoint) (*Exact, error) {
 	if !e.finite() {
 		return nil, errNotFinite
 	}
@@ -342,14 +445,12 @@ func (e *Exact) finite() bool {
 			}
 		}
 	}
-	for _, s := range e.stretches {
-		for _, t := range []float64{0, 0.5, 1} {
-			side := Right
-			if t == 1 {
-				side = Left
-			}
-			f := e.At(s.start+t*s.length, side)
-			for _, v := range []float64{f.AxialDisplacement, f.Deflection, f.Rotation, f.AxialForce,
+	// Each stretch is read directly, not through At's search for it.
+	var f Fields
+	for j := range e.stretches {
+		for _, t := range [3]float64{0, 0.5, 1} {
+			e.stretches[j].fields(t, &f)
+			for _, v := range [...]float64{f.AxialDisplacement, f.Deflection, f.Rotation, f.AxialForce,
 				f.ShearForce, f.BendingMoment, f.AxialStress, f.BendingStress, f.CombinedStress} {
 				if !isFinite(v) {
 					return false
@@ -486,14 +587,28 @@ func (e *Exact) layout(p odeProblem, points []keyPoint) exactLayout {
 func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys exactEquations) int {
 	nStretch := len(e.stretches)
 	row := 0
+	matrix, rhs := sys.parts()
+	// values holds a term's entries, one per constant (the beam has the
+	// most, four), cell a restraint's one.
+	var values [4]float64
+	var cell [1]float64
 	// term adds scale·y^(d) of stretch j at t to the row.
 	term := func(j, d int, t, scale float64) {
-		s := e.solution(p, j)
-		f := scale / integerPower(e.stretches[j].length, d)
-		for k := range p.order {
-			sys.add(row, l.firstCol[j]+k, f*s.basis(k, d, t))
+		v := values[:p.order]
+		if matrix || rhs {
+			s := e.solution(p, j)
+			f := scale / integerPower(e.stretches[j].length, d)
+			if matrix {
+				s.bases(d, t, v)
+				for k := range v {
+					v[k] *= f
+				}
+			}
+			if rhs {
+				sys.rhs(row, -f*s.particular(d, t))
+			}
 		}
-		sys.rhs(row, -f*s.particular(d, t))
+		sys.add(row, l.firstCol[j], v)
 	}
 	shear := func(j int) float64 {
 		if p.order == exactBeam.order {
@@ -560,7 +675,8 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 			first := next
 			for _, r := range kp.restraints {
 				if r.dof == d {
-					sys.add(row, l.heldCol[next], 1)
+					cell[0] = 1
+					sys.add(row, l.heldCol[next], cell[:])
 					next++
 				}
 			}
@@ -572,7 +688,8 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 					continue
 				}
 				motion(side, i, t, 1)
-				sys.add(row, l.heldCol[q], r.compliance)
+				cell[0] = r.compliance
+				sys.add(row, l.heldCol[q], cell[:])
 				sys.rhs(row, r.settlement)
 				row++
 				q++

@@ -19,35 +19,44 @@ import (
 // factorizes it once, and Solve answers any load set on the member's key
 // points (load cases, unit loads) with one substitution each.
 
-// exactEquations receives the equations row by row: add puts v into the
-// matrix at (row, col), rhs adds v to the right-hand side of row.
+// exactEquations receives the equations row by row: add adds v[k] to the
+// matrix at (row, col+k), rhs adds v to the right-hand side of row. parts
+// says which of the two it keeps: the assembly works out only those values
+// and passes zeros for a matrix no one reads.
 type exactEquations interface {
-	add(row, col int, v float64)
+	add(row, col int, v []float64)
 	rhs(row int, v float64)
+	parts() (matrix, rhs bool)
 }
 
 // bandShape records the band an assembly touches: a dry run gives the
 // widths before the matrix is allocated.
 type bandShape struct{ lower, upper int }
 
-func (s *bandShape) add(row, col int, _ float64) {
+func (s *bandShape) add(row, col int, v []float64) {
 	s.lower = max(s.lower, row-col)
-	s.upper = max(s.upper, col-row)
+	s.upper = max(s.upper, col+len(v)-1-row)
 }
 
-func (s *bandShape) rhs(int, float64) {}
+func (s *bandShape) rhs(int, float64)          {}
+func (s *bandShape) parts() (matrix, rhs bool) { return false, false }
 
-// matrixEquations keeps the matrix of the equations, rhsEquations their
-// right-hand side.
+// systemEquations keeps the matrix of the equations and their right-hand
+// side, rhsEquations the right-hand side alone.
 type (
-	matrixEquations struct{ a *band.General }
-	rhsEquations    struct{ b []float64 }
+	systemEquations struct {
+		a *band.General
+		b []float64
+	}
+	rhsEquations struct{ b []float64 }
 )
 
-func (s *matrixEquations) add(row, col int, v float64) { s.a.Add(row, col, v) }
-func (s *matrixEquations) rhs(int, float64)            {}
-func (s *rhsEquations) add(int, int, float64)          {}
-func (s *rhsEquations) rhs(row int, v float64)         { s.b[row] += v }
+func (s *systemEquations) add(row, col int, v []float64) { s.a.AddRow(row, col, v) }
+func (s *systemEquations) rhs(row int, v float64)        { s.b[row] += v }
+func (s *systemEquations) parts() (matrix, rhs bool)     { return true, true }
+func (s *rhsEquations) add(int, int, []float64)          {}
+func (s *rhsEquations) rhs(row int, v float64)           { s.b[row] += v }
+func (s *rhsEquations) parts() (matrix, rhs bool)        { return false, true }
 
 // equilibrationPasses is the number of Ruiz passes at most: each brings
 // every row and column maximum closer to 1 (Ruiz 2001, converges linearly
@@ -69,16 +78,24 @@ type exactFactor struct {
 // factorize equilibrates a (in place) by alternating square-root scaling of
 // rows and columns (Ruiz), so that equations in N and in m, and unknowns in
 // m and in N, meet on equal terms, and factorizes it by band LU with
-// partial pivoting.
+// partial pivoting, in a's storage: a is used up. The factorization is not
+// to be trusted before estimate accepts it.
 func (f *exactFactor) factorize(a *band.General) error {
 	f.rowScale, f.colScale = band.Equilibrate(a, equilibrationPasses)
-	if err := f.lu.Factorize(a); err != nil {
+	if err := f.lu.FactorizeInPlace(a); err != nil {
 		var se *band.SingularError
 		if errors.As(err, &se) {
 			return errExactSingular(math.Inf(1))
 		}
 		return fmt.Errorf("the exact solution cannot be found: %v", err)
 	}
+	return nil
+}
+
+// estimate sets the condition estimate of the equilibrated system a that
+// factorize used up, and refuses it above maxCondition. It only reads the
+// factorization, so solves may run beside it.
+func (f *exactFactor) estimate(a *band.General) error {
 	f.cond = f.lu.Cond(a)
 	if !(f.cond < maxCondition) {
 		return errExactSingular(f.cond)

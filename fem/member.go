@@ -191,8 +191,6 @@ func (p *Member) solveExact() {
 			p.exactErr = p.mechanism
 			return
 		}
-		if p.exactStructure, p.exactErr = newExactStructure(p); p.exactErr == nil {
-			p.exact, p.exactErr = p.exactStructure.Solve(&p.loads)
-		}
+		p.exactStructure, p.exact, p.exactErr = newExactStructure(p)
 	})
 }

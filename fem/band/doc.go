@@ -106,7 +106,9 @@
 //	cond := f.Cond(a)
 //
 // Factorize costs O(N·KL·(KL+KU)), SolveTo O(N·(2·KL+KU)), and neither
-// allocates once the LU has held a matrix of the same size. A pivot must
+// allocates once the LU has held a matrix of the same size;
+// FactorizeInPlace factorizes in a's own storage, for a matrix not needed
+// afterwards. A pivot must
 // exceed 1e−14 times the largest magnitude in its column of A; a refusal
 // means the 2-norm condition number of A is at least about 1e14/√(KL+1).
 // Partial pivoting is backward stable in practice, and in a band its growth

@@ -17,56 +17,82 @@ import "math"
 // diag(colScale), so that a now holds R·A·C: solve (R·A·C)·y = R·b and take
 // x = C·y. Fewer than one pass leaves a alone and returns unit scales;
 // passes is at most, as a pass that scales nothing ends the work.
+//
+// A pass reads only the rows and columns that may have changed since their
+// maximum was last found to need no scaling: those scaled themselves, and
+// those crossing one that was. The others would be scaled by 1, so the
+// result is the same to the bit as full passes, and the passes that only
+// settle a few stragglers cost little.
 func Equilibrate(a *General, passes int) (rowScale, colScale []float64) {
 	n := a.N
 	rowScale, colScale = make([]float64, n), make([]float64, n)
-	colMax, colFactor := make([]float64, n), make([]float64, n)
+	rowDirty, colDirty := make([]bool, n), make([]bool, n)
 	for i := range n {
 		rowScale[i], colScale[i] = 1, 1
+		rowDirty[i], colDirty[i] = true, true
 	}
 	for range passes {
 		settled := true
-		clear(colMax)
-		for i := range n {
+		for i, dirty := range rowDirty {
+			if !dirty {
+				continue
+			}
 			row := a.row(i)
-			big := 0.0
-			for _, v := range row {
-				big = larger(big, v)
-			}
+			big := largestMagnitude(row)
+			f := 1.0
 			if big > 0 {
-				f := inverseRoot(big)
-				settled = settled && f == 1
-				rowScale[i] *= f
-				for c := range row {
-					row[c] *= f
-				}
+				f = inverseRoot(big)
 			}
-			// The columns' maxima, gathered row by row: memory is read in
-			// order, not down the columns' stride.
-			cols := colMax[max(0, i-a.KL):]
-			for c, v := range row {
-				cols[c] = larger(cols[c], v)
+			rowDirty[i] = f != 1
+			if f == 1 {
+				continue
 			}
-		}
-		for j, big := range colMax {
-			colFactor[j] = 1
-			if big > 0 {
-				colFactor[j] = inverseRoot(big)
-				settled = settled && colFactor[j] == 1
-				colScale[j] *= colFactor[j]
-			}
-		}
-		for i := range n {
-			row, cols := a.row(i), colFactor[max(0, i-a.KL):]
+			settled = false
+			rowScale[i] *= f
 			for c := range row {
-				row[c] *= cols[c]
+				row[c] *= f
 			}
+			first := max(0, i-a.KL)
+			markAll(colDirty[first : first+len(row)])
+		}
+		for j, dirty := range colDirty {
+			if !dirty {
+				continue
+			}
+			p, count, step := a.column(j)
+			var bits uint64
+			for q, c := p, count; c > 0; q, c = q+step, c-1 {
+				bits = max(bits, magnitudeBits(a.Data[q]))
+			}
+			big := math.Float64frombits(bits)
+			f := 1.0
+			if big > 0 {
+				f = inverseRoot(big)
+			}
+			colDirty[j] = f != 1
+			if f == 1 {
+				continue
+			}
+			settled = false
+			colScale[j] *= f
+			for q, c := p, count; c > 0; q, c = q+step, c-1 {
+				a.Data[q] *= f
+			}
+			first := max(0, j-a.KU)
+			markAll(rowDirty[first : first+count])
 		}
 		if settled {
 			break
 		}
 	}
 	return rowScale, colScale
+}
+
+// markAll sets every flag of dirty.
+func markAll(dirty []bool) {
+	for i := range dirty {
+		dirty[i] = true
+	}
 }
 
 // inverseRoot is 1/√big rounded to the nearest power of two: scaling by
@@ -86,13 +112,16 @@ func inverseRoot(big float64) float64 {
 	return math.Ldexp(1, -(e >> 1))
 }
 
-// larger is the larger of big and |v|, or NaN when v is NaN: a plain
-// comparison, cheaper than the built-in max's care for signed zeros.
-func larger(big, v float64) float64 {
-	if a := math.Abs(v); a > big {
-		return a
-	} else if a != a {
-		return a
+// largestMagnitude is the largest |x| in v, NaN when v holds a NaN.
+func largestMagnitude(v []float64) float64 {
+	var bits uint64
+	for _, x := range v {
+		bits = max(bits, magnitudeBits(x))
 	}
-	return big
+	return math.Float64frombits(bits)
 }
+
+// magnitudeBits are the bits of |x|: magnitudes order as these do, and a
+// NaN's lie above every number's, so the largest of them is the largest
+// magnitude or a NaN, in integer comparisons cheaper than float ones.
+func magnitudeBits(x float64) uint64 { return math.Float64bits(x) &^ (1 << 63) }

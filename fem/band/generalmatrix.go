@@ -1,9 +1,6 @@
 package band
 
-import (
-	"fmt"
-	"math"
-)
+import "fmt"
 
 // General is an n×n band matrix with KL subdiagonals and KU superdiagonals,
 // not necessarily symmetric. It is stored by rows with room for the fill of
@@ -48,6 +45,21 @@ func (a *General) Set(i, j int, v float64) { a.Data[a.index(i, j)] = v }
 // Add adds v to A[i][j]; (i, j) must lie in the band, as for Set.
 func (a *General) Add(i, j int, v float64) { a.Data[a.index(i, j)] += v }
 
+// AddRow adds v[k] to A[i][j+k] for every k: a run of entries of row i,
+// all of which must lie in the band, as for Set. The run is contiguous in
+// Data, so its ends alone are checked.
+func (a *General) AddRow(i, j int, v []float64) {
+	if len(v) == 0 {
+		return
+	}
+	p := a.index(i, j)
+	a.index(i, j+len(v)-1)
+	row := a.Data[p : p+len(v)]
+	for k := range row {
+		row[k] += v[k]
+	}
+}
+
 // index is the place of A[i][j] in Data; it panics outside the band, where a
 // bare offset would write silently into another row or the fill.
 func (a *General) index(i, j int) int {
@@ -72,29 +84,4 @@ func (a *General) column(j int) (first, count, step int) {
 	s := a.Stride()
 	lo, hi := max(0, j-a.KU), min(a.N, j+a.KL+1)
 	return lo*s + j - lo + a.KL, hi - lo, s - 1
-}
-
-// columnMax returns the largest magnitude in column j, NaN if the column
-// holds a NaN.
-func (a *General) columnMax(j int) float64 {
-	p, count, step := a.column(j)
-	big := 0.0
-	for ; count > 0; p, count = p+step, count-1 {
-		big = max(big, math.Abs(a.Data[p]))
-	}
-	return big
-}
-
-// Norm1 returns the 1-norm of A, its largest column sum of magnitudes.
-func (a *General) Norm1() float64 {
-	norm := 0.0
-	for j := range a.N {
-		p, count, step := a.column(j)
-		sum := 0.0
-		for ; count > 0; p, count = p+step, count-1 {
-			sum += math.Abs(a.Data[p])
-		}
-		norm = max(norm, sum)
-	}
-	return norm
 }

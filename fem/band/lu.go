@@ -45,10 +45,20 @@ type LU struct {
 	f []float64
 	// pivots[i] is the row interchanged with row i at step i.
 	pivots []int
+	// reach[i] is how many places right of the diagonal row i of U holds
+	// up to its last nonzero: pivoting fills the KL places of fill only
+	// here and there, and the solves skip the zeros past it. Subtracting a
+	// zero product changes no number but −0, so they give the full width's
+	// answer to the bit, but perhaps for the sign of a zero.
+	reach []int
 	// valid says f holds a factorization to solve with.
 	valid bool
 	// work is scratch for the condition estimate.
 	work [2][]float64
+	// scale is the largest magnitude in each column of A, colSum the sum
+	// of their magnitudes, and norm1 the largest sum, ‖A‖₁.
+	scale, colSum []float64
+	norm1         float64
 }
 
 // Factorize computes the factorization of a, which it does not modify. At
@@ -60,7 +70,16 @@ type LU struct {
 // column left after elimination, of length at most KL+1, is a column of the
 // Schur complement, whose inverse is a block of A⁻¹ permuted. A matrix with
 // a NaN or an infinite entry, or whose elimination overflows, is refused too.
-func (f *LU) Factorize(a *General) error {
+func (f *LU) Factorize(a *General) error { return f.factorize(a, false) }
+
+// FactorizeInPlace is Factorize working in a's own storage instead of a
+// copy: a.Data then holds the factorization, belongs to the receiver, and
+// is no matrix to read, change or factorize again. It spares a matrix too
+// large to copy cheaply, and Cond(a) still estimates a's condition.
+func (f *LU) FactorizeInPlace(a *General) error { return f.factorize(a, true) }
+
+// factorize is Factorize, in a.Data itself when inPlace.
+func (f *LU) factorize(a *General, inPlace bool) error {
 	n, kl, ku := a.N, a.KL, a.KU
 	s := a.Stride()
 	f.valid = false
@@ -68,13 +87,36 @@ func (f *LU) Factorize(a *General) error {
 		return errors.New("band: band matrix storage is smaller than its size")
 	}
 	f.n, f.kl, f.ku = n, kl, ku
-	f.f, f.pivots = resized(f.f, n*s), resized(f.pivots, n)
-	d, piv := f.f, f.pivots
-	// The band of every row, and zeros in its fill, whatever a's fill holds.
+	f.pivots, f.reach = resized(f.pivots, n), resized(f.reach, n)
+	f.scale, f.colSum = resized(f.scale, n), resized(f.colSum, n)
+	if inPlace {
+		f.f = a.Data[:n*s]
+	} else {
+		f.f = resized(f.f, n*s)
+	}
+	d, piv, scale := f.f, f.pivots, f.scale
+	// The columns' largest magnitudes and their sums (down each column, as
+	// a walk down it would add them) gathered row by row, in memory's
+	// order, before the band of the row goes to d with zeros in its fill,
+	// whatever a's fill holds.
 	w := kl + ku + 1
+	clear(scale)
+	clear(f.colSum)
 	for i := range n {
-		copy(d[i*s:i*s+w], a.Data[i*s:i*s+w])
+		first := max(0, i-kl)
+		cols, sums := scale[first:], f.colSum[first:]
+		for c, v := range a.row(i) {
+			cols[c] = max(cols[c], math.Abs(v))
+			sums[c] += math.Abs(v)
+		}
+		if !inPlace {
+			copy(d[i*s:i*s+w], a.Data[i*s:i*s+w])
+		}
 		clear(d[i*s+w : i*s+s])
+	}
+	f.norm1 = 0
+	for _, sum := range f.colSum {
+		f.norm1 = max(f.norm1, sum)
 	}
 	// ju is the last column the rows of U so far reach (dgbtf2's JU): rows
 	// below need no update right of it.
@@ -89,8 +131,8 @@ func (f *LU) Factorize(a *General) error {
 			}
 		}
 		// A NaN compares false and an overflow is infinite: both refused.
-		if scale := a.columnMax(i); !(best > luTolerance*scale) || best > math.MaxFloat64 {
-			return &SingularError{Column: i, Pivot: d[p*s+kl-(p-i)], Scale: scale}
+		if !(best > luTolerance*scale[i]) || best > math.MaxFloat64 {
+			return &SingularError{Column: i, Pivot: d[p*s+kl-(p-i)], Scale: scale[i]}
 		}
 		piv[i] = p
 		ju = max(ju, min(p+ku, n-1))
@@ -103,6 +145,12 @@ func (f *LU) Factorize(a *General) error {
 			}
 		}
 		pivot, right := u[0], u[1:]
+		// Row i of U is final: no later step changes it.
+		m := len(right)
+		for m > 0 && right[m-1] == 0 {
+			m--
+		}
+		f.reach[i] = m
 		// Zero multipliers are not skipped: a NaN or an infinity right of
 		// the pivot then spreads down to a later pivot and is refused there.
 		for r := 1; r <= km; r++ {
@@ -148,20 +196,21 @@ func (f *LU) solve(x []float64) {
 	n, kl, s := f.n, f.kl, 2*f.kl+f.ku+1
 	d := f.f
 	// L⁻¹·P: the interchange and the multipliers of each step, in order.
+	// Going down column i of L, the place in d moves on by s−1 a row.
 	for i := range n {
 		if p := f.pivots[i]; p != i {
 			x[i], x[p] = x[p], x[i]
 		}
-		xi := x[i]
-		for r := 1; r <= min(kl, n-1-i); r++ {
-			x[i+r] -= d[(i+r)*s+kl-r] * xi
+		xi, q := x[i], i*s+kl
+		below := x[i+1 : i+1+min(kl, n-1-i)]
+		for r := range below {
+			q += s - 1
+			below[r] -= d[q] * xi
 		}
 	}
 	// U⁻¹, by rows from the bottom up.
-	w := kl + f.ku
 	for i := n - 1; i >= 0; i-- {
-		m := min(w, n-1-i)
-		u := d[i*s+kl+1 : i*s+kl+1+m]
+		u := d[i*s+kl+1 : i*s+kl+1+f.reach[i]]
 		rest := x[i+1 : i+1+len(u)]
 		sum := x[i]
 		for c, v := range u {
@@ -177,10 +226,8 @@ func (f *LU) solveTransposed(x []float64) {
 	n, kl, s := f.n, f.kl, 2*f.kl+f.ku+1
 	d := f.f
 	// U⁻ᵀ: the rows of U are the columns of Uᵀ.
-	w := kl + f.ku
 	for i := range n {
-		m := min(w, n-1-i)
-		u := d[i*s+kl+1 : i*s+kl+1+m]
+		u := d[i*s+kl+1 : i*s+kl+1+f.reach[i]]
 		rest := x[i+1 : i+1+len(u)]
 		xi := x[i] / d[i*s+kl]
 		x[i] = xi
@@ -190,9 +237,10 @@ func (f *LU) solveTransposed(x []float64) {
 	}
 	// Pᵀ·L⁻ᵀ: each step's multipliers, then its interchange, last step first.
 	for i := n - 1; i >= 0; i-- {
-		sum := x[i]
-		for r := 1; r <= min(kl, n-1-i); r++ {
-			sum -= d[(i+r)*s+kl-r] * x[i+r]
+		sum, q := x[i], i*s+kl
+		for _, v := range x[i+1 : i+1+min(kl, n-1-i)] {
+			q += s - 1
+			sum -= d[q] * v
 		}
 		x[i] = sum
 		if p := f.pivots[i]; p != i {

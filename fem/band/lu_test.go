@@ -717,3 +717,154 @@ func BenchmarkLUCond(b *testing.B) {
 		})
 	}
 }
+
+// fullWidthSolves are solve and solveTransposed as dgbtrs does them, over
+// all KL+KU superdiagonals of U, zeros and all: the reference for the
+// solves that stop at each row's last nonzero (LU.reach).
+func fullWidthSolves(f *LU, x []float64, transposed bool) {
+	n, kl, ku, s := f.n, f.kl, f.ku, 2*f.kl+f.ku+1
+	at := func(i, j int) float64 { return f.f[i*s+j-i+kl] } // U, or L below the diagonal
+	if !transposed {
+		for i := range n {
+			if p := f.pivots[i]; p != i {
+				x[i], x[p] = x[p], x[i]
+			}
+			for r := 1; r <= min(kl, n-1-i); r++ {
+				x[i+r] -= at(i+r, i) * x[i]
+			}
+		}
+		for i := n - 1; i >= 0; i-- {
+			sum := x[i]
+			for j := i + 1; j <= min(n-1, i+kl+ku); j++ {
+				sum -= at(i, j) * x[j]
+			}
+			x[i] = sum / at(i, i)
+		}
+		return
+	}
+	for i := range n {
+		x[i] /= at(i, i)
+		for j := i + 1; j <= min(n-1, i+kl+ku); j++ {
+			x[j] -= at(i, j) * x[i]
+		}
+	}
+	for i := n - 1; i >= 0; i-- {
+		sum := x[i]
+		for r := 1; r <= min(kl, n-1-i); r++ {
+			sum -= at(i+r, i) * x[i+r]
+		}
+		x[i] = sum
+		if p := f.pivots[i]; p != i {
+			x[i], x[p] = x[p], x[i]
+		}
+	}
+}
+
+// The solves skip the zeros at the end of each row of U; subtracting a zero
+// product leaves every sum they form as it was, so A⁻¹·b and A⁻ᵀ·b must be
+// the full-width solves' to the bit, with interchanges (mixed and shuffled
+// rows leave fill in some rows of U and not in others) and without.
+func TestLUSolvesSkipOnlyZeros(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(51, 52))
+	for _, c := range []bandCase{
+		{60, 2, 3, dominantRows},
+		{60, 3, 2, mixedRows},
+		{80, 6, 6, mixedRows},
+		{80, 4, 5, shuffledRows},
+		{5, 0, 2, mixedRows},
+	} {
+		t.Run(c.String(), func(t *testing.T) {
+			a := c.matrix(rnd)
+			var f LU
+			if err := f.Factorize(a); err != nil {
+				t.Fatal(err)
+			}
+			trimmed := false
+			for i, m := range f.reach {
+				trimmed = trimmed || m < min(c.kl+c.ku, c.n-1-i)
+			}
+			if !trimmed && c.kl > 0 {
+				t.Errorf("no row of U ends before its fill: the case does not test the skipping")
+			}
+			for _, transposed := range []bool{false, true} {
+				b := make([]float64, c.n)
+				for i := range b {
+					b[i] = rnd.NormFloat64()
+				}
+				got, want := slices.Clone(b), slices.Clone(b)
+				if transposed {
+					f.solveTransposed(got)
+				} else {
+					f.solve(got)
+				}
+				fullWidthSolves(&f, want, transposed)
+				for i := range got {
+					if math.Float64bits(got[i]) != math.Float64bits(want[i]) {
+						t.Fatalf("transposed %v: x[%d] = %.17g, full width %.17g", transposed, i, got[i], want[i])
+					}
+				}
+			}
+		})
+	}
+}
+
+// FactorizeInPlace is Factorize without the copy: the same factor,
+// interchanges, solves and condition estimate to the bit, the factor in
+// a's own storage, and the same refusal of a singular matrix.
+func TestLUFactorizeInPlace(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(61, 62))
+	singular := generalFrom(1, 1, [][]float64{{1, 2, 0}, {2, 4, 0}, {0, 1, 1}})
+	cases := []struct {
+		name string
+		a    *General
+	}{
+		{"dominant", bandCase{40, 2, 3, dominantRows}.matrix(rnd)},
+		{"mixed", bandCase{60, 6, 6, mixedRows}.matrix(rnd)},
+		{"shuffled", bandCase{50, 4, 5, shuffledRows}.matrix(rnd)},
+		{"one", bandCase{1, 0, 0, dominantRows}.matrix(rnd)},
+		{"singular", singular},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			var copied, inPlace LU
+			errCopied := copied.Factorize(c.a)
+			a := &General{N: c.a.N, KL: c.a.KL, KU: c.a.KU, Data: slices.Clone(c.a.Data)}
+			errInPlace := inPlace.FactorizeInPlace(a)
+			if fmt.Sprint(errCopied) != fmt.Sprint(errInPlace) {
+				t.Fatalf("Factorize: %v, in place: %v", errCopied, errInPlace)
+			}
+			if (errCopied != nil) != (c.name == "singular") {
+				t.Fatalf("Factorize: %v", errCopied)
+			}
+			if errCopied != nil {
+				return
+			}
+			if &inPlace.f[0] != &a.Data[0] {
+				t.Errorf("the factorization is not in a's storage")
+			}
+			same := func(x, y []float64) bool {
+				return slices.EqualFunc(x, y, func(u, v float64) bool { return math.Float64bits(u) == math.Float64bits(v) })
+			}
+			if !same(copied.f, inPlace.f) || !slices.Equal(copied.pivots, inPlace.pivots) {
+				t.Fatalf("the factors or interchanges differ")
+			}
+			b := make([]float64, c.a.N)
+			for i := range b {
+				b[i] = rnd.NormFloat64()
+			}
+			x, y := make([]float64, len(b)), make([]float64, len(b))
+			if err := copied.SolveTo(x, b); err != nil {
+				t.Fatal(err)
+			}
+			if err := inPlace.SolveTo(y, b); err != nil {
+				t.Fatal(err)
+			}
+			if !same(x, y) {
+				t.Errorf("solves differ: %v and %v", x, y)
+			}
+			if p, q := copied.Cond(c.a), inPlace.Cond(a); math.Float64bits(p) != math.Float64bits(q) {
+				t.Errorf("condition estimates %.17g and %.17g", p, q)
+			}
+		})
+	}
+}

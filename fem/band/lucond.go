@@ -3,7 +3,9 @@ package band
 import "math"
 
 // Cond estimates the 1-norm condition number ‖A‖₁·‖A⁻¹‖₁ of a, the matrix
-// that was factorized, as LAPACK's dgbcon does: ‖A‖₁ from a's band, ‖A⁻¹‖₁
+// that was factorized, as LAPACK's dgbcon does: ‖A‖₁ as Factorize found it
+// in a's band (a must not have changed since; after FactorizeInPlace a's
+// order alone is read), ‖A⁻¹‖₁
 // by Hager's method with Higham's refinements (LAPACK's dlacn2; Higham,
 // Accuracy and Stability of Numerical Algorithms, §15.3, from memory), at
 // most a dozen solves with A and Aᵀ, so its cost is O(N·(KL+KU)). The
@@ -19,7 +21,7 @@ func (f *LU) Cond(a *General) float64 {
 		return 0
 	}
 	f.work[0], f.work[1] = resized(f.work[0], n), resized(f.work[1], n)
-	return a.Norm1() * f.inverseNorm1(f.work[0], f.work[1])
+	return f.norm1 * f.inverseNorm1(f.work[0], f.work[1])
 }
 
 // inverseNorm1 estimates ‖A⁻¹‖₁ in the steps of dlacn2, with x and sign as
