@@ -332,14 +332,22 @@ func (s *Solution) ownMeasures() *feMeasures {
 // its derivative.
 func combinedError(fe, ex *Interval, best float64) extremum {
 	fa, fb := &fe.poly[QAxialStress], &fe.poly[QBendingStress]
-	var da, db Polynomial
-	for k := range da {
-		da[k], db[k] = fa[k]-ex.poly[QAxialStress][k], fb[k]-ex.poly[QBendingStress][k]
-	}
-	d := max(fe.degree[QAxialStress], fe.degree[QBendingStress], ex.degree[QAxialStress], ex.degree[QBendingStress])
+	ea, eb := &ex.poly[QAxialStress], &ex.poly[QBendingStress]
 	dfe := max(fe.degree[QAxialStress], fe.degree[QBendingStress])
-	if d <= 3 && cubicBound(&da)+cubicBound(&db) <= best {
-		return extremum{value: -1} // |σa error| + |σb error| cannot beat best
+	d := max(dfe, ex.degree[QAxialStress], ex.degree[QBendingStress])
+	var da, db Polynomial
+	if d <= 3 {
+		// The walk's usual case, written out: the terms above the cubic's
+		// are zero in both.
+		da[0], da[1], da[2], da[3] = fa[0]-ea[0], fa[1]-ea[1], fa[2]-ea[2], fa[3]-ea[3]
+		db[0], db[1], db[2], db[3] = fb[0]-eb[0], fb[1]-eb[1], fb[2]-eb[2], fb[3]-eb[3]
+		if cubicBound(&da)+cubicBound(&db) <= best {
+			return extremum{value: -1} // |σa error| + |σb error| cannot beat best
+		}
+	} else {
+		for k := range da {
+			da[k], db[k] = fa[k]-ea[k], fb[k]-eb[k]
+		}
 	}
 	if fe.oneFibre { // one piece, as splitFibres would leave it
 		g := combine(1, &da, fibreSign(fa.at(dfe, 0.5), fb.at(dfe, 0.5)), &db)
