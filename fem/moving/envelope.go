@@ -473,84 +473,89 @@ func (in *Influence) envelopeAt(s *sweeps, t *Train, runs []run, stations []floa
 	return e
 }
 
-// maxClimb bounds the steps of one climb in peaks.
+// maxClimb bounds the steps of one climb in Peak.
 const maxClimb = 1000
 
 // peaks are the points, off the stations of e, where each quantity's
-// largest and smallest value over the member lie. For one position of a
-// train the bending moment has its corners, and the shear force its jumps,
-// under the axles, so the worst value stands under an axle, which the
-// stations miss unless one lies there (by up to the shear force times half
-// the gap between stations); a smooth peak (the deflection) lies between
-// stations, which miss it by the curvature times the gap squared. From the
-// worst station it climbs: it tries the turn of the parabola through that
-// station and its neighbours, and the points under the axles of the
-// governing position and of its neighbours on either side, moves to the best of them while that is
-// worse still, and stops at the neighbouring stations. The moment under
-// one axle is a concave function of the position as long as no axle
-// passes a key point or the point itself, so the climb reaches the
-// largest moment of the classic rule (midspan halfway between the axle and
-// the resultant) on the positions of the step.
+// largest and smallest value over the member lie (Peak).
 func (in *Influence) peaks(s *sweeps, e *Envelope) []float64 {
-	n := len(e.Stations)
-	tol := keyTolerance * s.length
+	probe := func(xs []float64) *Envelope { return in.envelopeAt(s, &e.Train, e.runs, xs) }
 	var out []float64
 	for q := range EnvelopeQuantities {
 		for _, upper := range []bool{true, false} {
-			values, at := e.Min[q], e.MinAt[q]
-			if upper {
-				values, at = e.Max[q], e.MaxAt[q]
-			}
-			sign := 1.0
-			if !upper {
-				sign = -1
-			}
-			b := 0
-			for i := range values {
-				if sign*values[i] > sign*values[b] {
-					b = i
-				}
-			}
-			lo, hi := e.Stations[max(b-1, 0)], e.Stations[min(b+1, n-1)]
-			x, pos, v := e.Stations[b], at[b], sign*values[b]
-			moved := false
-			for c := range maxClimb {
-				cands := e.underAxles(pos, lo+tol, hi-tol)
-				if c == 0 && b > 0 && b < n-1 {
-					if xv, ok := vertex(e.Stations[b-1:b+2], values[b-1:b+2]); ok && xv > lo+tol && xv < hi-tol {
-						cands = append(cands, xv)
-						slices.Sort(cands)
-					}
-				}
-				if len(cands) == 0 {
-					break
-				}
-				probe := in.envelopeAt(s, &e.Train, e.runs, cands)
-				best := -1
-				for i := range cands {
-					pv := probe.Min[q][i]
-					if upper {
-						pv = probe.Max[q][i]
-					}
-					if sign*pv > v && (best < 0 || sign*pv > sign*probeValue(probe, q, best, upper)) {
-						best = i
-					}
-				}
-				if best < 0 {
-					break
-				}
-				x, v, moved = cands[best], sign*probeValue(probe, q, best, upper), true
-				pos = probe.MinAt[q][best]
-				if upper {
-					pos = probe.MaxAt[q][best]
-				}
-			}
-			if moved && math.Abs(x-e.Stations[b]) > tol {
-				out = append(out, x)
+			if ex, moved := e.Peak(q, upper, probe); moved {
+				out = append(out, ex.X)
 			}
 		}
 	}
 	return out
+}
+
+// Peak is the largest (upper) or smallest value of quantity q (an index
+// into EnvelopeQuantities) over the member, where the worst station of e
+// may miss it, and whether it lies off the stations; probe gives the same
+// envelope as e (the train's, or a combination's that takes it) at other
+// points, or nil when it cannot. For one position of a train the bending
+// moment has its corners, and the shear force its jumps, under the axles,
+// so the worst value stands under an axle, which the stations miss unless
+// one lies there (by up to the shear force times half the gap between
+// stations); a smooth peak (the deflection) lies between stations, which
+// miss it by the curvature times the gap squared. From the worst station
+// Peak climbs: it tries the turn of the parabola through that station and
+// its neighbours, and the points under the axles of the governing position
+// and of its neighbours on either side, moves to the best of them while
+// that is worse still, and stops at the neighbouring stations. The moment under
+// one axle is a concave function of the position as long as no axle
+// passes a key point or the point itself, so the climb reaches the
+// largest moment of the classic rule (midspan halfway between the axle and
+// the resultant) on the positions of the step.
+func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (Extreme, bool) {
+	n := len(e.Stations)
+	tol := keyTolerance * (e.Stations[n-1] - e.Stations[0])
+	sign := 1.0
+	values, at := e.Max[q], e.MaxAt[q]
+	if !upper {
+		sign, values, at = -1, e.Min[q], e.MinAt[q]
+	}
+	b := 0
+	for i := range values {
+		if sign*values[i] > sign*values[b] {
+			b = i
+		}
+	}
+	lo, hi := e.Stations[max(b-1, 0)]+tol, e.Stations[min(b+1, n-1)]-tol
+	x, pos, v := e.Stations[b], at[b], values[b]
+	for c := range maxClimb {
+		cands := e.underAxles(pos, lo, hi)
+		if c == 0 && b > 0 && b < n-1 {
+			if xv, ok := vertex(e.Stations[b-1:b+2], values[b-1:b+2]); ok && xv > lo && xv < hi {
+				cands = append(cands, xv)
+				slices.Sort(cands)
+			}
+		}
+		if len(cands) == 0 {
+			break
+		}
+		p := probe(cands)
+		if p == nil {
+			break
+		}
+		pv, pat := p.Max[q], p.MaxAt[q]
+		if !upper {
+			pv, pat = p.Min[q], p.MinAt[q]
+		}
+		best := -1
+		for i := range cands {
+			if sign*pv[i] > sign*v && (best < 0 || sign*pv[i] > sign*pv[best]) {
+				best = i
+			}
+		}
+		if best < 0 {
+			break
+		}
+		x, pos, v = cands[best], pat[best], pv[best]
+	}
+	return Extreme{v, x, e.Placement(pos)}, math.Abs(x-e.Stations[b]) > tol
 }
 
 // vertex is where the parabola through three points (x[i], v[i]) turns,
@@ -562,13 +567,6 @@ func vertex(x, v []float64) (float64, bool) {
 		return 0, false
 	}
 	return 0.5*(x[0]+x[1]) - d1/(2*curvature), true
-}
-
-func probeValue(e *Envelope, q, i int, upper bool) float64 {
-	if upper {
-		return e.Max[q][i]
-	}
-	return e.Min[q][i]
 }
 
 // underAxles are the points strictly between lo and hi under the axles of
