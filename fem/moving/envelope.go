@@ -511,6 +511,9 @@ func (in *Influence) peaks(s *sweeps, e *Envelope) []float64 {
 // the resultant) on the positions of the step.
 func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (Extreme, bool) {
 	n := len(e.Stations)
+	if n == 0 {
+		return Extreme{}, false
+	}
 	tol := keyTolerance * (e.Stations[n-1] - e.Stations[0])
 	sign := 1.0
 	values, at := e.Max[q], e.MaxAt[q]
