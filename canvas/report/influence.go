@@ -381,17 +381,23 @@ func MovingSheet(p *storage.Project, r *MovingLoads, i int, u units.System) (can
 	s.Header = []string{"quantity", "largest", "at", "front", "smallest", "at", "front"}
 	pos := func(x float64) string { return u.Format(units.Position, x) }
 	front := func(e TrainExtreme) string { return pos(e.Front) + " " + e.Direction }
-	// The finite element check shows where it differs as printed.
-	withFE := func(k units.Kind, e TrainExtreme) string {
+	// The finite element check shows where it differs as printed, round-off
+	// of the quantity's size aside (a moment that vanishes at a support).
+	withFE := func(k units.Kind, e TrainExtreme, size float64) string {
 		v := u.Format(k, e.Value)
-		if fe := u.Format(k, *e.FE); e.FE != nil && fe != v {
+		if e.FE == nil || math.Abs(*e.FE-e.Value) <= 1e-12*size {
+			return v
+		}
+		if fe := u.Format(k, *e.FE); fe != v {
 			v += " (FE " + fe + ")"
 		}
 		return v
 	}
 	for _, w := range tr.Worst {
 		k := w.Quantity.Info().Unit
-		s.Rows = append(s.Rows, []string{w.Quantity.String(), withFE(k, w.Largest), pos(w.Largest.X), front(w.Largest), withFE(k, w.Smallest), pos(w.Smallest.X), front(w.Smallest)})
+		size := max(math.Abs(w.Largest.Value), math.Abs(w.Smallest.Value))
+		s.Rows = append(s.Rows, []string{w.Quantity.String(), withFE(k, w.Largest, size), pos(w.Largest.X), front(w.Largest),
+			withFE(k, w.Smallest, size), pos(w.Smallest.X), front(w.Smallest)})
 	}
 	for _, re := range tr.Envelope.Reactions {
 		k := units.Force

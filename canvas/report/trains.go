@@ -181,8 +181,23 @@ func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem
 				}
 			}
 			tc := TrainCombination{Combination: cb.Name, Factor: tf.Factor, Envelope: c}
-			for _, q := range moving.EnvelopeQuantities {
+			// The combination at points off the stations, for its peaks
+			// there (no support lies between stations: no jump to side).
+			probe := func(xs []float64) *moving.Envelope {
+				at, err := in.Envelope(&p.Trains[i], mesh, xs)
+				if err != nil {
+					return nil
+				}
+				return at.Combine(tf.Factor, base(xs, fem.Right), nil)
+			}
+			for k, q := range moving.EnvelopeQuantities {
 				hi, lo := c.Worst(q)
+				if peak, off := c.Peak(k, true, probe); off {
+					hi = peak
+				}
+				if peak, off := c.Peak(k, false, probe); off {
+					lo = peak
+				}
 				tc.Worst = append(tc.Worst, QuantityWorst{Quantity: q, Largest: trainExtreme(hi), Smallest: trainExtreme(lo)})
 			}
 			out = append(out, tc)

@@ -420,9 +420,9 @@ var bothSides = []fem.Side{fem.Left, fem.Right}
 const parallelStations = 2048
 
 // Envelope finds train t's envelope at the stations (nil for Stations of
-// mesh), with the step t gives or one derived from mesh. Its cost grows
-// with the stations, the axles and the key points, not with the number of
-// positions (see the package comment).
+// mesh, with the peaks added: see peaks), with the step t gives or one
+// derived from mesh. Its cost grows with the stations, the axles and the
+// key points, not with the number of positions (see the package comment).
 func (in *Influence) Envelope(t *Train, mesh fem.Mesh, stations []float64) (*Envelope, error) {
 	s := in.bending
 	if s == nil {
@@ -432,9 +432,24 @@ func (in *Influence) Envelope(t *Train, mesh fem.Mesh, stations []float64) (*Env
 	if err != nil {
 		return nil, err
 	}
-	if stations == nil {
+	own := stations == nil
+	if own {
 		stations = Stations(mesh)
 	}
+	e := in.envelopeAt(s, t, runs, stations)
+	if own {
+		if extra := in.peaks(s, e); len(extra) > 0 {
+			stations = append(slices.Clone(stations), extra...)
+			slices.Sort(stations)
+			e = in.envelopeAt(s, t, runs, slices.Compact(stations))
+		}
+	}
+	in.envelopeReactions(s, e)
+	return e, nil
+}
+
+// envelopeAt is train t's envelope at the stations, without reactions.
+func (in *Influence) envelopeAt(s *sweeps, t *Train, runs []run, stations []float64) *Envelope {
 	e := &Envelope{Train: *t, Stations: stations, runs: runs, Step: runs[0].step, Positions: runs[0].n}
 	nq := len(EnvelopeQuantities)
 	e.Max, e.Min = make([][]float64, nq), make([][]float64, nq)
@@ -455,8 +470,127 @@ func (in *Influence) Envelope(t *Train, mesh fem.Mesh, stations []float64) (*Env
 		in.envelopeStations(s, e, 0, n/2)
 		<-done
 	}
-	in.envelopeReactions(s, e)
-	return e, nil
+	return e
+}
+
+// maxClimb bounds the steps of one climb in Peak.
+const maxClimb = 1000
+
+// peaks are the points, off the stations of e, where each quantity's
+// largest and smallest value over the member lie (Peak).
+func (in *Influence) peaks(s *sweeps, e *Envelope) []float64 {
+	probe := func(xs []float64) *Envelope { return in.envelopeAt(s, &e.Train, e.runs, xs) }
+	var out []float64
+	for q := range EnvelopeQuantities {
+		for _, upper := range []bool{true, false} {
+			if ex, moved := e.Peak(q, upper, probe); moved {
+				out = append(out, ex.X)
+			}
+		}
+	}
+	return out
+}
+
+// Peak is the largest (upper) or smallest value of quantity q (an index
+// into EnvelopeQuantities) over the member, where the worst station of e
+// may miss it, and whether it lies off the stations; probe gives the same
+// envelope as e (the train's, or a combination's that takes it) at other
+// points, or nil when it cannot. For one position of a train the bending
+// moment has its corners, and the shear force its jumps, under the axles,
+// so the worst value stands under an axle, which the stations miss unless
+// one lies there (by up to the shear force times half the gap between
+// stations); a smooth peak (the deflection) lies between stations, which
+// miss it by the curvature times the gap squared. From the worst station
+// Peak climbs: it tries the turn of the parabola through that station and
+// its neighbours, and the points under the axles of the governing position
+// and of its neighbours on either side, moves to the best of them while
+// that is worse still, and stops at the neighbouring stations. The moment under
+// one axle is a concave function of the position as long as no axle
+// passes a key point or the point itself, so the climb reaches the
+// largest moment of the classic rule (midspan halfway between the axle and
+// the resultant) on the positions of the step.
+func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (Extreme, bool) {
+	n := len(e.Stations)
+	if n == 0 {
+		return Extreme{}, false
+	}
+	tol := keyTolerance * (e.Stations[n-1] - e.Stations[0])
+	sign := 1.0
+	values, at := e.Max[q], e.MaxAt[q]
+	if !upper {
+		sign, values, at = -1, e.Min[q], e.MinAt[q]
+	}
+	b := 0
+	for i := range values {
+		if sign*values[i] > sign*values[b] {
+			b = i
+		}
+	}
+	lo, hi := e.Stations[max(b-1, 0)]+tol, e.Stations[min(b+1, n-1)]-tol
+	x, pos, v := e.Stations[b], at[b], values[b]
+	for c := range maxClimb {
+		cands := e.underAxles(pos, lo, hi)
+		if c == 0 && b > 0 && b < n-1 {
+			if xv, ok := vertex(e.Stations[b-1:b+2], values[b-1:b+2]); ok && xv > lo && xv < hi {
+				cands = append(cands, xv)
+				slices.Sort(cands)
+			}
+		}
+		if len(cands) == 0 {
+			break
+		}
+		p := probe(cands)
+		if p == nil {
+			break
+		}
+		pv, pat := p.Max[q], p.MaxAt[q]
+		if !upper {
+			pv, pat = p.Min[q], p.MinAt[q]
+		}
+		best := -1
+		for i := range cands {
+			if sign*pv[i] > sign*v && (best < 0 || sign*pv[i] > sign*pv[best]) {
+				best = i
+			}
+		}
+		if best < 0 {
+			break
+		}
+		x, pos, v = cands[best], pat[best], pv[best]
+	}
+	return Extreme{v, x, e.Placement(pos)}, math.Abs(x-e.Stations[b]) > tol
+}
+
+// vertex is where the parabola through three points (x[i], v[i]) turns,
+// if it turns.
+func vertex(x, v []float64) (float64, bool) {
+	d1, d2 := (v[1]-v[0])/(x[1]-x[0]), (v[2]-v[1])/(x[2]-x[1])
+	curvature := (d2 - d1) / (x[2] - x[0])
+	if curvature == 0 || math.IsNaN(curvature) {
+		return 0, false
+	}
+	return 0.5*(x[0]+x[1]) - d1/(2*curvature), true
+}
+
+// underAxles are the points strictly between lo and hi under the axles of
+// position i and of the positions either side of it in its run, in order.
+func (e *Envelope) underAxles(i int32, lo, hi float64) []float64 {
+	var out []float64
+	for _, r := range e.runs {
+		k := int(i - r.first)
+		if i < r.first || k >= r.n {
+			continue
+		}
+		for j := max(k-1, 0); j <= min(k+1, r.n-1); j++ {
+			for _, ax := range r.axles {
+				if x := r.front(j) + ax.offset; x > lo && x < hi {
+					out = append(out, x)
+				}
+			}
+		}
+	}
+	slices.Sort(out)
+	return slices.Compact(out)
 }
 
 // workRuns are copies of runs with scratch of their own, for one goroutine,

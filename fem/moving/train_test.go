@@ -297,3 +297,63 @@ func TestUniformTrainOverTheWholeSpan(t *testing.T) {
 		}
 	}
 }
+
+// The worst values over the member on the default stations (nil), where
+// they lie between stations: under an axle for the moment, at the turn of
+// the deflected shape for the deflection. Simple beam of span 10 m, EI =
+// 200 GPa × 8e-5 m⁴, positions on a grid that holds the governing one.
+func TestWorstBetweenDefaultStations(t *testing.T) {
+	const L = 10.0
+	const EI = 200e9 * 8e-5
+	m := beam(L, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: L, Kind: fem.Roller})
+	in := influence(t, m)
+	p, _ := fem.Prepare(m)
+	// One load P at b = 3 m from the left support: the largest deflection
+	// P·b·(L² − b²)^(3/2)/(9√3·L·EI), in the longer part, √((L² − b²)/3)
+	// from the right support. Source: simple beam, concentrated load at any
+	// point, beam diagrams and formulas (AISC Steel Construction Manual),
+	// from memory.
+	const P, b = 50e3, 3.0
+	wMax := -P * b * math.Pow(L*L-b*b, 1.5) / (9 * math.Sqrt(3) * L * EI)
+	xMax := L - math.Sqrt((L*L-b*b)/3)
+	// Three axles 40, 120 and 90 kN, 2.0 m and 3.5 m apart (resultant 250
+	// kN, 0.94 m from the middle axle): the largest moment stands under the
+	// middle axle when midspan lies halfway between it and the resultant,
+	// at x = 5 ∓ 0.47 m, and is R_A·x − 40 kN·2 m with R_A = 250 kN·(5 −
+	// 0.47 m)/10 m: 433.0225 kN·m. Source: absolute maximum moment under
+	// moving concentrated loads, Hibbeler, Structural Analysis, ch. 6, from
+	// memory; the value follows by statics.
+	three := []Axle{{Load: 40e3}, {Load: 120e3, Spacing: 2}, {Load: 90e3, Spacing: 3.5}}
+	for _, c := range []struct {
+		name     string
+		train    Train
+		q        fem.Quantity
+		upper    bool
+		want, at []float64 // acceptable values and places (mirror images)
+	}{
+		{"three axles, largest moment under the middle axle", Train{Axles: three, Step: 0.01},
+			fem.QBendingMoment, true, []float64{433022.5}, []float64{4.53, 5.47}},
+		{"one load stopped at 3 m, largest deflection off the load", Train{Axles: []Axle{{Load: P}}, From: 0, To: 3, Step: 0.05},
+			fem.QDeflection, false, []float64{wMax}, []float64{xMax}},
+	} {
+		e, err := in.Envelope(&c.train, p.Mesh(), nil)
+		if err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		hi, lo := e.Worst(c.q)
+		got := lo
+		if c.upper {
+			got = hi
+		}
+		if !near(got.Value, c.want[0], 1e-9) {
+			t.Errorf("%s: got %.12g, want %.12g", c.name, got.Value, c.want[0])
+		}
+		ok := false
+		for _, x := range c.at {
+			ok = ok || near(got.X, x, 1e-4)
+		}
+		if !ok {
+			t.Errorf("%s: at x = %.9g, want one of %v", c.name, got.X, c.at)
+		}
+	}
+}
