@@ -288,6 +288,12 @@ type FoundationEnvelope struct {
 
 // Envelope is what a walk over the combinations found.
 type Envelope struct {
+	// Exact says the quantities' envelope is of the exact solutions (after
+	// SolveExact, where every stretch of every load set is polynomial); it
+	// is of the finite element solutions otherwise (a member on an elastic
+	// foundation, or before SolveExact). Reactions are the same in both:
+	// the finite element reactions are exact.
+	Exact       bool
 	Quantities  []QuantityEnvelope // in report order
 	Reactions   []ReactionEnvelope
 	Foundations []FoundationEnvelope // nil without foundations
@@ -307,9 +313,13 @@ const (
 type envelopeWalk struct {
 	cs            *CombinationSolutions
 	fixed, shares []Interval
-	degrees       [polynomialQuantities]int
-	degree        [envelopeValues]int
-	lo, hi        [envelopeValues]envelopePoint
+	// exact walks the exact solutions, read through the cursors; else the
+	// finite element ones.
+	exact             bool
+	fixedOn, sharesOn []exactCursor
+	degrees           [polynomialQuantities]int
+	degree            [envelopeValues]int
+	lo, hi            [envelopeValues]envelopePoint
 	// The polynomials of one element: the shares', and one combination's
 	// shares with its factors.
 	sharePoly [][envelopeValues]Polynomial
@@ -332,6 +342,11 @@ func newEnvelopeWalk(cs *CombinationSolutions) *envelopeWalk {
 	w := &envelopeWalk{cs: cs, fixed: make([]Interval, len(cs.Fixed)), shares: make([]Interval, len(cs.Shares)),
 		sharePoly: make([][envelopeValues]Polynomial, len(cs.Shares))}
 	w.degrees = cs.Fixed[0].degrees()
+	if cs.polynomialExact() {
+		w.exact = true
+		w.degrees = exactDegrees
+		w.fixedOn, w.sharesOn = cursors(cs.FixedExact), cursors(cs.SharesExact)
+	}
 	copy(w.degree[:], w.degrees[:])
 	w.degree[bottomFibre] = max(w.degrees[QAxialStress], w.degrees[QBendingStress])
 	w.degree[topFibre] = w.degree[bottomFibre]
@@ -342,6 +357,31 @@ func newEnvelopeWalk(cs *CombinationSolutions) *envelopeWalk {
 		w.patterned = append(w.patterned, slices.ContainsFunc(row, func(f float64) bool { return f != 0 }))
 	}
 	return w
+}
+
+// polynomialExact reports whether every load set has its exact solution
+// and each is a polynomial on every stretch.
+func (cs *CombinationSolutions) polynomialExact() bool {
+	if cs.FixedExact == nil {
+		return false
+	}
+	for _, e := range slices.Concat(cs.FixedExact, cs.SharesExact) {
+		for j := range e.stretches {
+			if !e.stretches[j].polynomial() {
+				return false
+			}
+		}
+	}
+	return true
+}
+
+// cursors are cursors at the start of each of es.
+func cursors(es []*Exact) []exactCursor {
+	out := make([]exactCursor, len(es))
+	for k, e := range es {
+		out[k].exact = e
+	}
+	return out
 }
 
 // endValue is value i at an end f of an interval.
@@ -368,11 +408,20 @@ func polynomialOf(v *Interval, i int) Polynomial {
 
 // visit takes element e into the envelope.
 func (w *envelopeWalk) visit(e int) {
+	el := &w.cs.Fixed[0].Mesh.Elements[e]
 	for k, s := range w.cs.Fixed {
-		s.elementInterval(e, &w.fixed[k])
+		if w.exact {
+			w.fixedOn[k].interval(el.Start, el.End, &w.fixed[k])
+		} else {
+			s.elementInterval(e, &w.fixed[k])
+		}
 	}
 	for k, s := range w.cs.Shares {
-		s.elementInterval(e, &w.shares[k])
+		if w.exact {
+			w.sharesOn[k].interval(el.Start, el.End, &w.shares[k])
+		} else {
+			s.elementInterval(e, &w.shares[k])
+		}
 		for i := range envelopeValues {
 			w.sharePoly[k][i] = polynomialOf(&w.shares[k], i)
 		}
@@ -385,7 +434,7 @@ func (w *envelopeWalk) visit(e int) {
 			d := w.degree[i]
 			if d <= 1 && !w.patterned[c] {
 				// Linear: the element's own end values, start first.
-				v0, v1 := endValue(&f.ends[0], i), endValue(&f.ends[1], i)
+				v0, v1 := endValue(f.End(0), i), endValue(f.End(1), i)
 				lo, hi := extremum{0, v0}, extremum{0, v0}
 				lo.least(1, v1)
 				hi.most(1, v1)
@@ -403,7 +452,7 @@ func (w *envelopeWalk) visit(e int) {
 			if len(w.parts) > 0 {
 				lo, hi = w.patternRange(&a, d)
 			} else {
-				lo, hi = rangeOn(&a, d, endValue(&f.ends[0], i), endValue(&f.ends[1], i))
+				lo, hi = rangeOn(&a, d, endValue(f.End(0), i), endValue(f.End(1), i))
 			}
 			w.take(&w.lo[i], &w.hi[i], e, x0, h, c, lo, hi)
 		}
@@ -523,19 +572,19 @@ func (cs *CombinationSolutions) Envelope() *Envelope {
 		<-done
 		w.join(later)
 	}
-	env := &Envelope{Reactions: cs.reactionEnvelope(), Foundations: cs.foundationEnvelope()}
+	env := &Envelope{Exact: w.exact, Reactions: cs.reactionEnvelope(), Foundations: cs.foundationEnvelope()}
 	for _, q := range Quantities() {
 		var lo, hi Governing
 		if q == QCombinedStress {
-			lo, hi = cs.governing(&w.lo[bottomFibre], bottomFibre, false), cs.governing(&w.hi[bottomFibre], bottomFibre, true)
+			lo, hi = w.governing(&w.lo[bottomFibre], bottomFibre, false), w.governing(&w.hi[bottomFibre], bottomFibre, true)
 			if w.lo[topFibre].value < lo.Value {
-				lo = cs.governing(&w.lo[topFibre], topFibre, false)
+				lo = w.governing(&w.lo[topFibre], topFibre, false)
 			}
 			if w.hi[topFibre].value > hi.Value {
-				hi = cs.governing(&w.hi[topFibre], topFibre, true)
+				hi = w.governing(&w.hi[topFibre], topFibre, true)
 			}
 		} else {
-			lo, hi = cs.governing(&w.lo[q], int(q), false), cs.governing(&w.hi[q], int(q), true)
+			lo, hi = w.governing(&w.lo[q], int(q), false), w.governing(&w.hi[q], int(q), true)
 		}
 		env.Quantities = append(env.Quantities, QuantityEnvelope{Quantity: q, Max: hi, Min: lo})
 	}
@@ -545,14 +594,21 @@ func (cs *CombinationSolutions) Envelope() *Envelope {
 // governing is the extreme p of value i as a Governing: the spans its
 // combination loads there are those whose share pushes value i up (upper)
 // or down at p.
-func (cs *CombinationSolutions) governing(p *envelopePoint, i int, upper bool) Governing {
+func (w *envelopeWalk) governing(p *envelopePoint, i int, upper bool) Governing {
+	cs := w.cs
 	g := Governing{X: p.x, Value: p.value, Combination: p.combination}
 	var iv Interval
 	for j, f := range cs.Loads.Factors[p.combination] {
 		if f == 0 {
 			continue
 		}
-		cs.Shares[j].elementInterval(p.element, &iv)
+		if w.exact {
+			el := &cs.Fixed[0].Mesh.Elements[p.element]
+			on := exactCursor{exact: cs.SharesExact[j]}
+			on.interval(el.Start, el.End, &iv)
+		} else {
+			cs.Shares[j].elementInterval(p.element, &iv)
+		}
 		poly := polynomialOf(&iv, i)
 		if v := f * poly.At(p.xi); upper && v > 0 || !upper && v < 0 {
 			g.Loaded = append(g.Loaded, cs.Loads.Shares[j])

@@ -370,16 +370,44 @@ type ElementView struct {
 
 // walker fills the view of each element in turn.
 type walker struct {
-	s       *Solution
+	s     *Solution
+	exact *Exact
+	on    exactCursor
+	view  ElementView
+}
+
+// exactCursor reads an exact solution element by element, along the
+// member: it keeps the stretch of the last element.
+type exactCursor struct {
 	exact   *Exact
-	stretch int // the exact stretch of the last element
-	view    ElementView
+	stretch int
+}
+
+// interval sets v to the exact solution on the element from start to end
+// (m): the polynomials of the stretch holding it, re-expressed on the
+// element. Elements never cross a key point, so one stretch holds each; it
+// returns that stretch and whether it differs from the last element's.
+func (c *exactCursor) interval(start, end float64, v *Interval) (*exactStretch, bool) {
+	st := c.exact.stretches
+	mid := start + (end-start)/2
+	moved := false
+	if c.stretch+1 < len(st) && st[c.stretch+1].start <= mid {
+		c.stretch = sort.Search(len(st), func(j int) bool { return st[j].start > mid }) - 1
+		moved = true
+	}
+	s := &st[c.stretch]
+	t0 := (start - s.start) / s.length
+	if start-s.start <= mergeTolerance*c.exact.keys[len(c.exact.keys)-1] {
+		t0 = 0
+	}
+	s.interval(t0, (end-start)/s.length, start, end-start, v)
+	return s, moved
 }
 
 func newWalker(s *Solution, e *Exact) *walker {
 	w := &walker{s: s}
 	if e != nil && len(e.stretches) > 0 {
-		w.exact = e
+		w.exact, w.on.exact = e, e
 		w.view.HasExact = true
 		w.view.Exact.degree = exactDegrees
 		w.view.exactSize = e.stretches[0].sizes()
@@ -399,22 +427,11 @@ func (w *walker) element(i int) *ElementView {
 	return v
 }
 
-// exactOn sets v.Exact to the exact solution on v's element: the
-// polynomials of the stretch holding it, re-expressed on the element.
-// Elements never cross a key point, so one stretch holds each.
+// exactOn sets v.Exact to the exact solution on v's element.
 func (w *walker) exactOn(v *ElementView) {
-	st := w.exact.stretches
-	mid := v.Start + (v.End-v.Start)/2
-	if w.stretch+1 < len(st) && st[w.stretch+1].start <= mid {
-		w.stretch = sort.Search(len(st), func(j int) bool { return st[j].start > mid }) - 1
-		v.exactSize = st[w.stretch].sizes()
+	if s, moved := w.on.interval(v.Start, v.End, &v.Exact); moved {
+		v.exactSize = s.sizes()
 	}
-	s := &st[w.stretch]
-	t0 := (v.Start - s.start) / s.length
-	if v.Start-s.start <= mergeTolerance*w.exact.keys[len(w.exact.keys)-1] {
-		t0 = 0
-	}
-	s.interval(t0, (v.End-v.Start)/s.length, v.Start, v.End-v.Start, &v.Exact)
 }
 
 // sizes are the sums of the magnitudes of the stretch's coefficients of u

@@ -62,7 +62,11 @@ type FactorJSON struct {
 // EnvelopeJSON is the envelope over every combination and arrangement of
 // spans.
 type EnvelopeJSON struct {
-	Caution    string               `json:"caution"`
+	Caution string `json:"caution"`
+	// Solution is whose values the quantities' envelope holds: "exact", or
+	// "finite element" where the exact solution is no polynomial (a member
+	// on an elastic foundation).
+	Solution   string               `json:"solution"`
 	Spans      [][2]float64         `json:"spans"` // m, in order; loaded spans count from 1
 	Quantities []QuantityEnvelope   `json:"quantities"`
 	Reactions  []ReactionEnvelopeJS `json:"reactions"`
@@ -163,7 +167,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 		out.Combinations = append(out.Combinations, cj)
 	}
 	env := c.Envelope
-	out.Envelope = EnvelopeJSON{Caution: CombinedCaution, Spans: c.Solutions.Loads.Spans}
+	out.Envelope = EnvelopeJSON{Caution: CombinedCaution, Solution: envelopeSolution(env), Spans: c.Solutions.Loads.Spans}
 	for _, q := range env.Quantities {
 		out.Envelope.Quantities = append(out.Envelope.Quantities, QuantityEnvelope{Quantity: q.Quantity, Name: q.Quantity.Key(), Unit: q.Quantity.Info().SI,
 			Max: governingJSON(m, c, q.Max), Min: governingJSON(m, c, q.Min)})
@@ -401,7 +405,7 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 		fmt.Fprintln(tw, "  A combination that takes a train enters the envelope below with its train at the train's worst position (every span loaded); the trains further on give it in full.")
 	}
 	tw.Flush()
-	fmt.Fprintf(tw, "\nEnvelope over every combination%s\n", spanWords(r.Envelope.Spans))
+	fmt.Fprintf(tw, "\nEnvelope over every combination%s (%s solution)\n", spanWords(r.Envelope.Spans), r.Envelope.Solution)
 	fmt.Fprintln(tw, "  quantity\tlargest\tat x\tgoverning\tsmallest\tat x\tgoverning")
 	for _, q := range r.Envelope.Quantities {
 		k := q.Quantity.Info().Unit
@@ -547,4 +551,12 @@ func sheetCaseLines(src Source) []string {
 		lines = append(lines, "Ground's resultant across the member, foundation "+strings.Join(ground, "; ")+".")
 	}
 	return lines
+}
+
+// envelopeSolution names whose values env's quantities hold.
+func envelopeSolution(env *fem.Envelope) string {
+	if env.Exact {
+		return "exact"
+	}
+	return "finite element"
 }
