@@ -3,8 +3,10 @@ package report
 import (
 	"fmt"
 	"math"
+	"slices"
 
 	"stave/fem"
+	"stave/fem/analysis"
 	"stave/fem/moving"
 	"stave/storage"
 )
@@ -477,4 +479,27 @@ func envelopeJSON(e *moving.Envelope) *TrainEnvelopeJSON {
 		out.Quantities = append(out.Quantities, eq)
 	}
 	return out
+}
+
+// TrainFindings are the findings of the trains that could not be placed
+// on the member, which their results leave out: a warning each, beside
+// the error in the train's own results.
+func TrainFindings(trains []TrainResult) []analysis.Finding {
+	var out []analysis.Finding
+	for _, t := range trains {
+		if t.Err == nil {
+			continue
+		}
+		out = append(out, analysis.CodeTrainNotPlaced.Finding(fmt.Sprintf("moving load %s left out", t.Label),
+			fmt.Sprintf("Moving load %s could not be placed on the member, so the trains' results leave it out: %v.", t.Label, t.Err)))
+	}
+	return out
+}
+
+// WithTrains is src with its trains worked out (Trains) and the findings
+// of those that could not be placed added to its findings.
+func (src Source) WithTrains() Source {
+	src.Trains = src.trains()
+	src.Findings = append(slices.Clip(src.Findings), TrainFindings(src.Trains)...)
+	return src
 }

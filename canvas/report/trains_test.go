@@ -208,3 +208,38 @@ func TestMovingSheetLeavesRoundOffOut(t *testing.T) {
 	}
 	t.Error("no bending moment row on the sheet")
 }
+
+// A train that does not fit on the member is left out of the trains'
+// results with a warning among the findings, not in its own results
+// alone; trains that fit give none.
+func TestTrainLeftOutIsWarned(t *testing.T) {
+	p, err := storage.Load("../../testdata/two_span_cases.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	fits := moving.Train{Name: "trolley", Axles: []moving.Axle{{Load: 12e3}, {Load: 12e3, Spacing: 1.2}}, Step: 0.05}
+	long := moving.Train{Name: "long", Axles: []moving.Axle{{Load: 12e3}, {Load: 12e3, Spacing: 50}}, Step: 0.05}
+	for _, tc := range []struct {
+		trains []moving.Train
+		warned int
+	}{{[]moving.Train{fits}, 0}, {[]moving.Train{fits, long}, 1}} {
+		p.Trains = tc.trains
+		src, err := Analyse(context.Background(), p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		src = src.WithTrains()
+		warned := 0
+		for _, f := range src.Findings {
+			if f.Code == analysis.CodeTrainNotPlaced {
+				warned++
+				if f.Severity != analysis.Caution {
+					t.Errorf("%s: severity %v, want a caution", f.Name, f.Severity)
+				}
+			}
+		}
+		if warned != tc.warned || len(src.Trains) != len(tc.trains) {
+			t.Errorf("%d trains: %d warnings of a train left out, %d results; want %d and %d", len(tc.trains), warned, len(src.Trains), tc.warned, len(tc.trains))
+		}
+	}
+}

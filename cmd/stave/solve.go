@@ -59,6 +59,9 @@ func solveCommand(args []string, stdout io.Writer) error {
 	}
 	src := report.NewSource(p, &a)
 	src.Units = sys
+	if a.Err == nil {
+		src = src.WithTrains() // worked out once for every output below, with a warning for a train left out
+	}
 	switch {
 	case *asJSON:
 		if err := report.WriteSolveJSON(stdout, path, src); err != nil {

@@ -26,6 +26,7 @@ const (
 	CodeVerified          Code = "verified"
 	CodePending           Code = "pending"
 	CodeTrainNotChecked   Code = "train_not_checked"
+	CodeTrainNotPlaced    Code = "train_not_placed"
 )
 
 // CodeInfo describes one code: the severity its findings have, whether it
@@ -56,7 +57,13 @@ var Codes = []CodeInfo{
 	{CodeVerified, OK, false, "a verification of the answer (equilibrium, error against the exact solution, handbook) agrees"},
 	{CodePending, Pending, false, "the exact solution and the checks follow (the window, while the drawing moves)"},
 	{CodeTrainNotChecked, Caution, false, "a combination takes a moving load train, which the design checks and the drawn envelope leave out: the train's part is in the trains' results"},
+	{CodeTrainNotPlaced, Caution, false, "a moving load train could not be placed on the member (the message says why: it does not fit, say): the trains' results leave it out"},
 }
+
+// Finding is a finding of code c, with the severity and reliability the
+// code has, for findings made outside the analysis (the moving load
+// trains').
+func (c Code) Finding(name, message string) Finding { return finding(c, name, message) }
 
 // info is the entry of Codes for c.
 func (c Code) info() CodeInfo {
