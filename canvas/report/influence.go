@@ -167,10 +167,13 @@ func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *mo
 		if tr.Envelope != nil {
 			fmt.Fprintf(w, "  %d positions each way it moves, %s apart\n", tr.Envelope.Positions, pos(tr.Envelope.Step))
 		}
-		if tr.Target && target != nil {
+		switch {
+		case tr.Target && target != nil:
 			kind := targetKind(*target)
 			fmt.Fprintf(w, "  %s: largest %s, smallest %s\n", describeTarget(*target, u),
 				trainExtremeText(tr.Largest, kind, u, false), trainExtremeText(tr.Smallest, kind, u, false))
+		case target != nil:
+			fmt.Fprintf(w, "  %s: 0 under every position; a train's loads act across the member and move no axial force or axial displacement\n", describeTarget(*target, u))
 		}
 		if tr.Envelope == nil {
 			continue

@@ -3,6 +3,7 @@ package report
 import (
 	"context"
 	"math"
+	"strings"
 	"testing"
 
 	"stave/fem"
@@ -240,6 +241,31 @@ func TestTrainLeftOutIsWarned(t *testing.T) {
 		}
 		if warned != tc.warned || len(src.Trains) != len(tc.trains) {
 			t.Errorf("%d trains: %d warnings of a train left out, %d results; want %d and %d", len(tc.trains), warned, len(src.Trains), tc.warned, len(tc.trains))
+		}
+	}
+}
+
+// An influence line of an axial quantity says of each train that it moves
+// none of it (its loads act across the member), instead of a train's
+// heading with nothing under it; a bending quantity gets the train's
+// extremes.
+func TestTrainOnAxialTargetSaysNone(t *testing.T) {
+	p, err := storage.Load("../../testdata/moving/runway.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, tc := range []struct {
+		q    fem.Quantity
+		none bool
+	}{{fem.QAxialForce, true}, {fem.QBendingMoment, false}} {
+		r, err := Influence(p, InfluenceRequest{Target: moving.Target{Quantity: tc.q, X: 3}})
+		if err != nil {
+			t.Fatal(err)
+		}
+		var b strings.Builder
+		WriteInfluenceText(&b, "runway.json", r, units.SI)
+		if got := strings.Count(b.String(), "move no axial force"); (got == len(p.Trains)) != tc.none || (got == 0) == tc.none {
+			t.Errorf("%s: %d trains said to move none, of %d:\n%s", tc.q, got, len(p.Trains), b.String())
 		}
 	}
 }
