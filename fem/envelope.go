@@ -329,10 +329,12 @@ type envelopeWalk struct {
 	patterned []bool
 }
 
-// envelopePoint is an extreme found so far: where (element, ξ and x), its
-// value and its combination.
+// envelopePoint is an extreme found so far: where (the element, or the
+// interval between neighbouring key points of the exact solutions, from
+// start to end; ξ and x), its value and its combination.
 type envelopePoint struct {
 	element     int
+	start, end  float64 // m
 	xi, x       float64
 	value       float64
 	combination int
@@ -406,19 +408,20 @@ func polynomialOf(v *Interval, i int) Polynomial {
 	return v.poly[i]
 }
 
-// visit takes element e into the envelope.
-func (w *envelopeWalk) visit(e int) {
-	el := &w.cs.Fixed[0].Mesh.Elements[e]
+// visit takes into the envelope element e of the finite element
+// solutions, or of the exact ones the interval from start to end (m)
+// between neighbouring key points of them all.
+func (w *envelopeWalk) visit(e int, start, end float64) {
 	for k, s := range w.cs.Fixed {
 		if w.exact {
-			w.fixedOn[k].interval(el.Start, el.End, &w.fixed[k])
+			w.fixedOn[k].interval(start, end, &w.fixed[k])
 		} else {
 			s.elementInterval(e, &w.fixed[k])
 		}
 	}
 	for k, s := range w.cs.Shares {
 		if w.exact {
-			w.sharesOn[k].interval(el.Start, el.End, &w.shares[k])
+			w.sharesOn[k].interval(start, end, &w.shares[k])
 		} else {
 			s.elementInterval(e, &w.shares[k])
 		}
@@ -463,12 +466,24 @@ func (w *envelopeWalk) visit(e int) {
 // combination c, where they pass the extremes so far; the first met wins a
 // tie.
 func (w *envelopeWalk) take(lo, hi *envelopePoint, e int, x0, h float64, c int, l, u extremum) {
-	if l.value < lo.value {
-		*lo = envelopePoint{e, l.xi, x0 + l.xi*h, l.value, c}
+	if beyond(lo.value, l.value) {
+		*lo = envelopePoint{e, x0, x0 + h, l.xi, x0 + l.xi*h, l.value, c}
 	}
-	if u.value > hi.value {
-		*hi = envelopePoint{e, u.xi, x0 + u.xi*h, u.value, c}
+	if beyond(u.value, hi.value) {
+		*hi = envelopePoint{e, x0, x0 + h, u.xi, x0 + u.xi*h, u.value, c}
 	}
+}
+
+// envelopeTie is the relative difference within which two extremes of an
+// envelope tie: round-off, which would otherwise choose between the equal
+// peaks of a symmetric member.
+const envelopeTie = 1e-12
+
+// beyond reports whether a exceeds b by more than a tie (envelopeTie of
+// the smaller size; an infinite a, the start of a search, exceeds every
+// number): the later of two places is taken only then.
+func beyond(a, b float64) bool {
+	return a > b && !(a-b <= envelopeTie*math.Min(math.Abs(a), math.Abs(b)))
 }
 
 // patternRange is the smallest and the largest value on [0, 1] of
@@ -533,10 +548,10 @@ func rangeBetween(p *Polynomial, d int, a, b float64) (lo, hi extremum) {
 // w's, the earlier.
 func (w *envelopeWalk) join(later *envelopeWalk) {
 	keep := func(lo, hi *envelopePoint, l, u envelopePoint) {
-		if l.value < lo.value {
+		if beyond(lo.value, l.value) {
 			*lo = l
 		}
-		if u.value > hi.value {
+		if beyond(u.value, hi.value) {
 			*hi = u
 		}
 	}
@@ -545,32 +560,23 @@ func (w *envelopeWalk) join(later *envelopeWalk) {
 	}
 }
 
-// Envelope walks the elements once for every combination and span share:
-// the envelope of each quantity with its governing combination and
-// arrangement, and the reactions' envelope.
-// From parallelWalk elements on the second half of the member goes to a
-// second goroutine, cut as Walk cuts it.
+// Envelope is the envelope of each quantity with its governing combination
+// and arrangement, and the reactions' envelope: of the exact solutions when
+// they are polynomials (Envelope.Exact), walked between neighbouring key
+// points of them all, else of the finite element ones, walked element by
+// element once for every combination and span share.
 func (cs *CombinationSolutions) Envelope() *Envelope {
-	n := len(cs.Fixed[0].fields)
 	w := newEnvelopeWalk(cs)
-	if n < parallelWalk {
-		for e := range n {
-			w.visit(e)
+	if w.exact {
+		// Every exact solution is one polynomial between neighbouring key
+		// points of them all: the envelope walks those intervals, not the
+		// elements.
+		keys := cs.exactKeys()
+		for i := 1; i < len(keys); i++ {
+			w.visit(i-1, keys[i-1], keys[i])
 		}
 	} else {
-		later := newEnvelopeWalk(cs)
-		done := make(chan struct{})
-		go func() {
-			for e := n / 2; e < n; e++ {
-				later.visit(e)
-			}
-			close(done)
-		}()
-		for e := range n / 2 {
-			w.visit(e)
-		}
-		<-done
-		w.join(later)
+		w.walkElements()
 	}
 	env := &Envelope{Exact: w.exact, Reactions: cs.reactionEnvelope(), Foundations: cs.foundationEnvelope()}
 	for _, q := range Quantities() {
@@ -591,6 +597,43 @@ func (cs *CombinationSolutions) Envelope() *Envelope {
 	return env
 }
 
+// walkElements visits every element of the finite element solutions;
+// from parallelWalk elements on the second half of the member goes to a
+// second goroutine, cut as Walk cuts it.
+func (w *envelopeWalk) walkElements() {
+	els := w.cs.Fixed[0].Mesh.Elements
+	n := len(els)
+	visit := func(w *envelopeWalk, from, to int) {
+		for e := from; e < to; e++ {
+			w.visit(e, els[e].Start, els[e].End)
+		}
+	}
+	if n < parallelWalk {
+		visit(w, 0, n)
+		return
+	}
+	later := newEnvelopeWalk(w.cs)
+	done := make(chan struct{})
+	go func() {
+		visit(later, n/2, n)
+		close(done)
+	}()
+	visit(w, 0, n/2)
+	<-done
+	w.join(later)
+}
+
+// exactKeys are the key points of every load set's exact solution, in
+// order, with the member's ends.
+func (cs *CombinationSolutions) exactKeys() []float64 {
+	var keys []float64
+	for _, e := range slices.Concat(cs.FixedExact, cs.SharesExact) {
+		keys = append(keys, e.keys...)
+	}
+	slices.Sort(keys)
+	return slices.Compact(keys)
+}
+
 // governing is the extreme p of value i as a Governing: the spans its
 // combination loads there are those whose share pushes value i up (upper)
 // or down at p.
@@ -603,9 +646,8 @@ func (w *envelopeWalk) governing(p *envelopePoint, i int, upper bool) Governing 
 			continue
 		}
 		if w.exact {
-			el := &cs.Fixed[0].Mesh.Elements[p.element]
 			on := exactCursor{exact: cs.SharesExact[j]}
-			on.interval(el.Start, el.End, &iv)
+			on.interval(p.start, p.end, &iv)
 		} else {
 			cs.Shares[j].elementInterval(p.element, &iv)
 		}
