@@ -103,6 +103,7 @@ func (m *Model) Validate() error {
 	L := m.Length()
 	v.L = L
 	v.tol = mergeTolerance * math.Abs(L)
+	v.modelHinges = m.Hinges
 	v.segments(m.Segments)
 	lengthKnown := isFinite(L) && L > 0
 	v.supports(m.Supports, lengthKnown)
@@ -178,8 +179,9 @@ func (v *validator) axialOnlyLoads(points []PointLoad, lines []DistributedLoad) 
 }
 
 type validator struct {
-	problems []Problem
-	L, tol   float64
+	problems    []Problem
+	L, tol      float64
+	modelHinges []Hinge // for the point loads: a moment at a hinge is refused
 	// loadCase is the case whose loads are being checked (Item.Case), and
 	// prefix opens their messages with the case's name.
 	loadCase int
@@ -618,6 +620,21 @@ func (v *validator) pointLoads(loads []PointLoad, lengthKnown bool) {
 		v.finite(at(AxialForceProperty), "the axial force", p.Axial, "N")
 		v.finite(at(TransverseForceProperty), "the transverse force", p.Transverse, "N")
 		v.finite(at(MomentProperty), "the moment", p.Moment, "N·m")
+		v.momentAtHinge(at(PositionProperty), i, p)
+	}
+}
+
+// momentAtHinge refuses a point moment at a hinge: it turns one of the two
+// parts the hinge joins, and the model cannot say which (the solutions
+// would each pick a side, and not the same one).
+func (v *validator) momentAtHinge(at Place, i int, p PointLoad) {
+	if p.Moment == 0 || !isFinite(p.X) {
+		return
+	}
+	for j, h := range v.modelHinges {
+		if math.Abs(h.X-p.X) <= v.tol {
+			v.add(at, fmt.Sprintf("point load %d puts a moment on hinge %d (x = %s), which turns only one of the two parts the hinge joins, and the model cannot say which: move the load a little to the left or the right of the hinge, onto the part it turns", i+1, j+1, fmtMetres(h.X)))
+		}
 	}
 }
 
