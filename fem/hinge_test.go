@@ -242,3 +242,58 @@ func TestPointMomentAtHinge(t *testing.T) {
 		}
 	}
 }
+
+// A pure hinge where a support holds the deflection only elastically, or
+// holds only the axial motion, leaves the two parts joined, so it is
+// solved, not refused as cutting the member into separate spans (as it is
+// at a pinned or roller support, TestHingeAtSupportRefused). A beam fixed at
+// x = 0 with a hinge at x = a and a roller at x = L under a uniform load q
+// (w = −q down): the suspended part hands q(L−a)/2 to the joint (statics).
+// On a spring k there, the joint sinks by δ = (q(L−a)/2/kc + q·a⁴/(8EI)) /
+// (1 + k/kc), kc = 3EI/a³ the cantilever's tip stiffness, and the spring
+// takes k·δ (compatibility; cantilever tip deflections P·a³/(3EI) and
+// q·a⁴/(8EI), Gere & Goodno tables, from memory). At an axial support an
+// axial force P beyond it goes to that support alone (statics).
+func TestPureHingeOnElasticOrAxialSupport(t *testing.T) {
+	const L, a, q, P = 8.0, 4.0, 5e3, 3e3
+	ei := testE * testI
+	kc := 3 * ei / (a * a * a)
+	const k = 1e6
+	delta := (q*(L-a)/2/kc + q*a*a*a*a/(8*ei)) / (1 + k/kc)
+	for _, tc := range []struct {
+		name    string
+		support Support
+		load    []PointLoad
+		dof     Dof
+		want    float64 // the middle support's reaction, N
+	}{
+		{"transverse spring", Support{X: a, Kind: Spring, Stiffness: [3]float64{0, k, 0}}, nil, Transverse, k * delta},
+		{"axial support", Support{X: a, Kind: AxialOnly}, []PointLoad{{X: 6, Axial: P}}, Axial, -P},
+	} {
+		m := &Model{
+			Segments:        []Segment{testSegment(0, L)},
+			Supports:        []Support{{X: 0, Kind: Fixed}, tc.support, {X: L, Kind: Roller}},
+			Hinges:          []Hinge{{X: a}},
+			PointLoads:      tc.load,
+			DistributedLoad: []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -q}, {L, -q}}}},
+			Mesh:            MeshSettings{Elements: 16},
+		}
+		if err := m.Validate(); err != nil {
+			t.Errorf("%s: %v, want it accepted", tc.name, err)
+			continue
+		}
+		s := mustSolve(t, m)
+		e, err := SolveExact(m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for name, r := range map[string][]Reaction{"FE": s.Reactions, "exact": e.Reactions()} {
+			if got := r[1].Force[tc.dof]; relErr(got, tc.want) > 1e-9 {
+				t.Errorf("%s, %s: middle support's reaction %.9g, want %.9g", tc.name, name, got, tc.want)
+			}
+			if got, want := r[2].Force[Transverse], q*(L-a)/2; relErr(got, want) > 1e-9 {
+				t.Errorf("%s, %s: roller's reaction %.9g, want %.9g", tc.name, name, got, want)
+			}
+		}
+	}
+}

@@ -500,8 +500,10 @@ func (v *validator) shearDeformation(i int, s Segment) {
 
 // hinges checks the moment releases: inside the member, one per point, not
 // where a support holds the rotation (which side would it hold?), not as a
-// pure hinge at a support that lets the member turn (that support already
-// frees the joint; a semi-rigid joint there is kept), a
+// pure hinge at a support that holds the deflection rigidly and lets the
+// member turn (that support already frees the joint and cuts the member in
+// two; a semi-rigid joint there is kept; a spring across or an axial
+// support leaves the parts joined), a
 // spring stiffness in range, and not on an axial-only member.
 func (v *validator) hinges(m *Model, lengthKnown bool) {
 	for i, h := range m.Hinges {
@@ -525,7 +527,7 @@ func (v *validator) hinges(m *Model, lengthKnown bool) {
 			}
 			if s.Holds(Rotation) {
 				v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), which holds the rotation: it cannot say which side the support holds; move the hinge off the support, or choose a support kind that lets the member turn (pinned, roller)", i+1, k+1, fmtMetres(h.X)))
-			} else if h.Stiffness == 0 {
+			} else if h.Stiffness == 0 && s.Kind.Restrains(Transverse) {
 				v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), a %s support that already lets the member turn there: a pure hinge would cut the member into separate spans; check each span as its own member, move the hinge into the span, or give it a rotational stiffness for a semi-rigid joint over the support", i+1, k+1, fmtMetres(h.X), s.Kind))
 			}
 		}
