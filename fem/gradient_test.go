@@ -89,3 +89,53 @@ func TestTemperatureDifferenceRefused(t *testing.T) {
 		}
 	}
 }
+
+// A member restrained against what the temperature would do stays where it
+// is: its displacements are zero (the fixed-ended beam of
+// TestTemperatureDifferenceThroughDepth; a bar pinned at both ends warmed
+// uniformly, N = −EA·α·ΔT, restrained bar, textbook closed form), so FE
+// and exact agree on them up to round-off. Their extremes' accuracy must
+// say so, not measure one solution's round-off against the other's as a
+// 100 % difference (which the summary did for the fixed-ended beam on
+// Stave's own mesh, and called the mesh too coarse).
+func TestRestrainedDisplacementsAtRoundOff(t *testing.T) {
+	const L, dT = 5.0, 20.0
+	for _, c := range []struct {
+		name     string
+		supports []Support
+		edit     func(s *Segment, m *Model)
+	}{
+		{"fixed-ended beam, warmer below", []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Fixed}}, func(s *Segment, m *Model) {
+			s.TemperatureDifference = dT
+		}},
+		{"fixed-ended beam, warmer above and through", []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Fixed}}, func(s *Segment, m *Model) {
+			s.TemperatureDifference = -dT
+			m.TemperatureChange = dT
+		}},
+		{"bar pinned at both ends, warmed", []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Pinned}}, func(s *Segment, m *Model) {
+			m.TemperatureChange = dT
+		}},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			seg := Segment{Start: 0, End: L,
+				Section:  Section{Area: 0.01, SecondMoment: 1e-4, FibreDistance: 0.15},
+				Material: Material{Elastic: 2e11, ThermalExpansion: testα}}
+			m := &Model{Supports: c.supports} // Stave's own mesh
+			c.edit(&seg, m)
+			m.Segments = []Segment{seg}
+			s := mustSolve(t, m)
+			e, err := SolveExact(m)
+			if err != nil {
+				t.Fatal(err)
+			}
+			for _, x := range Summarize(s, e).Extremes {
+				switch x.Quantity {
+				case QAxialDisplacement, QDeflection, QRotation:
+					if x.Accuracy > 1e-9 {
+						t.Errorf("%v: accuracy %.3g (exact %.3g..%.3g, FE %.3g..%.3g), want round-off", x.Quantity, x.Accuracy, x.Min, x.Max, x.FEMin, x.FEMax)
+					}
+				}
+			}
+		})
+	}
+}
