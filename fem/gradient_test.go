@@ -1,6 +1,7 @@
 package fem
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"testing"
@@ -137,5 +138,54 @@ func TestRestrainedDisplacementsAtRoundOff(t *testing.T) {
 				}
 			}
 		})
+	}
+}
+
+// In a model with load cases a segment's temperature difference acts in
+// the cases that take it (LoadCase.ThermalGradient). One no case takes
+// would act in none, and the file format had no way to give it to one, so
+// it was dropped without a word: such a model is refused at the segment.
+// Taken by a case, it gives that case alone the fixed-ended beam's
+// M = −EI·κ, end moments ±EI·κ (Roark's, thermal bending of beams, from
+// memory), and the other case none of it.
+func TestTemperatureDifferenceInLoadCases(t *testing.T) {
+	const L, dT, depth = 6.0, 30.0, 0.3
+	ei := testE * testI
+	kappa := testα * dT / depth
+	build := func(takes bool) *Model {
+		seg := testSegment(0, L)
+		seg.Section.Depth, seg.TemperatureDifference = depth, dT
+		return &Model{
+			Segments: []Segment{seg},
+			Supports: []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Fixed}},
+			Cases: []LoadCase{
+				{Name: "imposed", PointLoads: []PointLoad{{X: L / 2, Transverse: -1e3}}},
+				{Name: "sun", TemperatureChange: 10, ThermalGradient: takes},
+			},
+			Mesh: MeshSettings{Elements: 8},
+		}
+	}
+	var ve *ValidationError
+	err := build(false).Validate()
+	if want := (Place{Item: Item{Kind: SegmentItem}, Property: TemperatureDifferenceProperty}); !errors.As(err, &ve) || len(ve.Problems) != 1 || ve.Problems[0].Place != want {
+		t.Fatalf("no case takes the temperature difference: got %v, want one refusal at %+v", err, want)
+	}
+	m := build(true)
+	for _, c := range []struct {
+		name   string
+		set    int
+		moment float64 // the left end's reaction moment, N·m
+	}{
+		{"imposed", 0, 1e3 * L / 8}, // P·L/8 (fixed-ended beam, central load; AISC beam diagrams, from memory)
+		{"sun", 1, ei * kappa},
+	} {
+		set := m.LoadSet(c.set)
+		e, err := SolveExact(&set)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got := e.Reactions()[0].Force[Rotation]; relErr(got, c.moment) > 1e-9 {
+			t.Errorf("%s: left end moment %.9g, want %.9g", c.name, got, c.moment)
+		}
 	}
 }

@@ -207,6 +207,12 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 		if m.TemperatureChange != 0 {
 			v.add(Place{Item: modelItem, Property: TemperatureChangeProperty}, "the temperature change is outside the load cases; the model has load cases, so give it to one of them")
 		}
+		takenBy := slices.IndexFunc(m.Cases, func(lc LoadCase) bool { return lc.ThermalGradient })
+		for i, sg := range m.Segments {
+			if sg.TemperatureDifference != 0 && takenBy < 0 {
+				v.add(Place{Item: Item{Kind: SegmentItem, Index: i}, Property: TemperatureDifferenceProperty}, fmt.Sprintf("segment %d is warmer on one face than the other, but no load case takes the temperature differences, so they would act in none: mark the case they belong to, or remove the temperature difference", i+1))
+			}
+		}
 	} else if len(m.Combinations) > 0 {
 		v.add(Place{Item: Item{Kind: CombinationItem, Index: 0}}, "there are combinations but no load cases to combine: add load cases, or delete the combinations")
 	}
