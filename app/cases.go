@@ -133,12 +133,12 @@ func (r *readout) showEnvelope(w *Window, x float64) bool {
 // casesPanel is the list of load cases, the case being edited, what the
 // drawing shows and the combinations.
 type casesPanel struct {
-	w                               *Window
-	box                             *fyne.Container
-	caseSelect, showSelect          *widget.Select
-	selfWeight, settlements, bySpan *widget.Check
-	showing                         []analysis.Show // the choices of showSelect
-	updating                        bool            // set while the panel sets its own widgets
+	w                                         *Window
+	box                                       *fyne.Container
+	caseSelect, showSelect                    *widget.Select
+	selfWeight, settlements, gradient, bySpan *widget.Check
+	showing                                   []analysis.Show // the choices of showSelect
+	updating                                  bool            // set while the panel sets its own widgets
 }
 
 // newCasesPanel builds the panel; refresh fills it.
@@ -165,13 +165,14 @@ func newCasesPanel(w *Window) *casesPanel {
 	}
 	c.selfWeight = flag("self-weight", func(lc *fem.LoadCase, on bool) { lc.SelfWeight = on })
 	c.settlements = flag("settlements", func(lc *fem.LoadCase, on bool) { lc.Settlements = on })
+	c.gradient = flag("ΔT through depth", func(lc *fem.LoadCase, on bool) { lc.ThermalGradient = on })
 	c.bySpan = flag("placed by span", func(lc *fem.LoadCase, on bool) { lc.BySpan = on })
 	c.box = container.NewVBox(heading("Load cases"),
 		widget.NewLabel("Editing"), c.caseSelect,
 		// Icons keep the tool strip narrow: add, rename, delete.
 		container.NewGridWithColumns(3, widget.NewButtonWithIcon("", theme.ContentAddIcon(), w.addCase),
 			widget.NewButtonWithIcon("", theme.DocumentCreateIcon(), w.renameCase), widget.NewButtonWithIcon("", theme.DeleteIcon(), w.deleteCase)),
-		c.selfWeight, c.settlements, c.bySpan,
+		c.selfWeight, c.settlements, c.gradient, c.bySpan,
 		widget.NewButton("Combinations…", w.showCombinations))
 	return c
 }
@@ -189,7 +190,7 @@ func (c *casesPanel) refresh() {
 	c.caseSelect.Options = names
 	c.caseSelect.SetSelectedIndex(min(w.editCase, len(names)-1))
 	hasCases := len(m.Cases) > 0
-	for _, ch := range []*widget.Check{c.selfWeight, c.settlements, c.bySpan} {
+	for _, ch := range []*widget.Check{c.selfWeight, c.settlements, c.gradient, c.bySpan} {
 		if hasCases {
 			ch.Enable()
 		} else {
@@ -200,6 +201,7 @@ func (c *casesPanel) refresh() {
 		lc := m.Cases[min(w.editCase, len(m.Cases)-1)]
 		c.selfWeight.SetChecked(lc.SelfWeight)
 		c.settlements.SetChecked(lc.Settlements)
+		c.gradient.SetChecked(lc.ThermalGradient)
 		c.bySpan.SetChecked(lc.BySpan)
 	}
 	c.showing = c.showing[:0]
@@ -291,13 +293,17 @@ func (w *Window) addCaseNamed(name string) error {
 }
 
 // ownLoadsAsCase is m, a model without cases, with its loads in one case
-// named "loads": its own loads and temperature, its self-weight and its
-// supports' settlements where it has them.
+// named "loads": its own loads and temperature, its self-weight, its
+// supports' settlements and its segments' temperature differences where it
+// has them.
 func ownLoadsAsCase(m fem.Model) fem.Model {
 	lc := fem.LoadCase{Name: m.LoadSetName(0), PointLoads: m.PointLoads, DistributedLoad: m.DistributedLoad,
 		TemperatureChange: m.TemperatureChange, SelfWeight: m.Gravity != [2]float64{}}
 	for _, s := range m.Supports {
 		lc.Settlements = lc.Settlements || s.Settlement != [3]float64{}
+	}
+	for _, sg := range m.Segments {
+		lc.ThermalGradient = lc.ThermalGradient || sg.TemperatureDifference != 0
 	}
 	m.PointLoads, m.DistributedLoad, m.TemperatureChange = nil, nil, 0
 	m.Cases = []fem.LoadCase{lc}

@@ -180,3 +180,27 @@ func TestCombinationTableTrains(t *testing.T) {
 		t.Errorf("an empty cell keeps the train: %+v, %v", combos, err)
 	}
 }
+
+// A model without cases that gets one keeps every action in the case its
+// own loads become: its segments' temperature differences too, which were
+// left in no case (and so acted in none) before.
+func TestOwnLoadsAsCaseKeepsEveryAction(t *testing.T) {
+	for _, c := range []struct {
+		name                    string
+		edit                    func(m *fem.Model)
+		settlements, difference bool
+	}{
+		{"loads only", func(m *fem.Model) {}, false, false},
+		{"settlement", func(m *fem.Model) { m.Supports[0].Settlement[fem.Transverse] = -0.01 }, true, false},
+		{"temperature difference", func(m *fem.Model) { m.Segments[0].TemperatureDifference = 20 }, false, true},
+	} {
+		m := newMember(4)
+		addSupport(&m, fem.Fixed, 0)
+		m.PointLoads = []fem.PointLoad{{X: 2, Transverse: -1e3}}
+		c.edit(&m)
+		lc := ownLoadsAsCase(m).Cases[0]
+		if lc.Settlements != c.settlements || lc.ThermalGradient != c.difference || len(lc.PointLoads) != 1 {
+			t.Errorf("%s: case %+v, want settlements %v and temperature differences %v", c.name, lc, c.settlements, c.difference)
+		}
+	}
+}

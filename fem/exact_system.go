@@ -131,7 +131,16 @@ func (e *Exact) Warning() string {
 	return fmt.Sprintf("the exact solution's equations are ill-conditioned (estimated condition number %.2g after scaling): its values may carry relative errors up to %.0e, and the finite element error measured against it may be its own; supports, loads or changes of section very close together cause this", e.Condition, e.Condition*eps)
 }
 
-// errExactSingular says the exact solution's equations cannot be trusted.
-func errExactSingular(cond float64) error {
-	return fmt.Errorf("the exact solution cannot be found: its equations are singular or nearly so (condition number %.3g after scaling); look for springs of extreme stiffness, supports or loads very close together, or very different sections side by side", cond)
+// SingularError says the exact solution's equations are singular or so
+// nearly singular that they cannot be trusted: the model itself is, so the
+// finite element answer of the same model is in doubt too.
+type SingularError struct {
+	Condition float64 // estimated condition number after scaling; +Inf when singular
 }
+
+func (e *SingularError) Error() string {
+	return fmt.Sprintf("the exact solution cannot be found: its equations are singular or nearly so (condition number %.3g after scaling); look for springs of extreme stiffness, supports or loads very close together, or very different sections side by side", e.Condition)
+}
+
+// errExactSingular says the exact solution's equations cannot be trusted.
+func errExactSingular(cond float64) error { return &SingularError{Condition: cond} }

@@ -262,7 +262,7 @@ func exactExtremes(e *Exact) *extremes {
 
 // withExact makes the exact extremes ex the headline values of list and
 // measures the finite element ones against them.
-func withExact(list []Extreme, ex *extremes, L float64, floor [2]float64) {
+func withExact(list []Extreme, ex *extremes, L float64, floor [3]float64) {
 	exact := ex.list()
 	var largest [quantityCount]float64
 	for i, e := range exact {
@@ -279,12 +279,14 @@ func withExact(list []Extreme, ex *extremes, L float64, floor [2]float64) {
 }
 
 // forceFloor is the size the internal forces of s's model are at least
-// measured against, N, and its stresses, Pa: the loads applied and the
-// supports' actions (each, not their sum), and the imposed deformations
-// fully restrained (Model.ImposedScales), a moment counted as a force by
-// dividing by the length; the stress, the force on the smallest area or
-// the moment on the smallest section modulus.
-func forceFloor(s *Solution) [2]float64 {
+// measured against, N, its stresses, Pa, and its displacements, m: the
+// loads applied and the supports' actions (each, not their sum), and the
+// imposed deformations fully restrained (Model.ImposedScales), a moment
+// counted as a force by dividing by the length; the stress, the force on
+// the smallest area or the moment on the smallest section modulus; the
+// displacement, what that force stretches or bends the most flexible
+// segment over the member's length (F·L/EA, F·L³/EI).
+func forceFloor(s *Solution) [3]float64 {
 	m := &s.Model
 	L := m.Length()
 	force, moment := m.ImposedScales()
@@ -298,13 +300,16 @@ func forceFloor(s *Solution) [2]float64 {
 	if L > 0 {
 		force = max(force, moment/L)
 	}
-	stress := 0.0
+	stress, displacement := 0.0, 0.0
 	for _, sg := range m.Segments {
 		if sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
 			stress = max(stress, force/sg.Section.Area, force*L*sg.Section.FibreDistance/sg.Section.SecondMoment)
 		}
+		if e := sg.Material.Elastic; e > 0 && sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
+			displacement = max(displacement, force*L/(e*sg.Section.Area), force*L*L*L/(e*sg.Section.SecondMoment))
+		}
 	}
-	return [2]float64{force, stress}
+	return [3]float64{force, stress, displacement}
 }
 
 // fieldScale is the size quantity q is measured against: its largest
@@ -313,17 +318,19 @@ func forceFloor(s *Solution) [2]float64 {
 // in a beam, a moment in a heated bar — and then the size of that kind:
 // displacements max(|u|, |w|, |θ|·L), forces max(|N|, |V|, |M|/L) (L the
 // member's length, m), stresses the largest of the three. So a field that
-// is zero to round-off is not measured against its own round-off. Forces
-// and stresses are of a kind at least floor (forceFloor): where the loads
-// and imposed deformations go wholly into free motion (a determinate beam
-// warmer below) every internal force is round-off, and is measured against
-// the size the loads would give, not against itself.
-func fieldScale(q Quantity, largest *[quantityCount]float64, L float64, floor [2]float64) float64 {
+// is zero to round-off is not measured against its own round-off. Forces,
+// stresses and displacements are of a kind at least floor (forceFloor):
+// where the loads and imposed deformations go wholly into free motion (a
+// determinate beam warmer below) every internal force is round-off, and
+// where they are wholly restrained (a fixed-ended beam warmer below) every
+// displacement is; each is measured against the size the loads would
+// give, not against itself.
+func fieldScale(q Quantity, largest *[quantityCount]float64, L float64, floor [3]float64) float64 {
 	own := largest[q]
 	var kind float64 // the size of q's kind, in q's unit
 	switch q {
 	case QAxialDisplacement, QDeflection, QRotation:
-		kind = max(largest[QAxialDisplacement], largest[QDeflection], largest[QRotation]*L)
+		kind = max(largest[QAxialDisplacement], largest[QDeflection], largest[QRotation]*L, floor[2])
 		if q == QRotation {
 			kind /= L
 		}

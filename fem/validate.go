@@ -103,6 +103,7 @@ func (m *Model) Validate() error {
 	L := m.Length()
 	v.L = L
 	v.tol = mergeTolerance * math.Abs(L)
+	v.modelHinges = m.Hinges
 	v.segments(m.Segments)
 	lengthKnown := isFinite(L) && L > 0
 	v.supports(m.Supports, lengthKnown)
@@ -178,8 +179,9 @@ func (v *validator) axialOnlyLoads(points []PointLoad, lines []DistributedLoad) 
 }
 
 type validator struct {
-	problems []Problem
-	L, tol   float64
+	problems    []Problem
+	L, tol      float64
+	modelHinges []Hinge // for the point loads: a moment at a hinge is refused
 	// loadCase is the case whose loads are being checked (Item.Case), and
 	// prefix opens their messages with the case's name.
 	loadCase int
@@ -204,6 +206,12 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 		}
 		if m.TemperatureChange != 0 {
 			v.add(Place{Item: modelItem, Property: TemperatureChangeProperty}, "the temperature change is outside the load cases; the model has load cases, so give it to one of them")
+		}
+		takenBy := slices.IndexFunc(m.Cases, func(lc LoadCase) bool { return lc.ThermalGradient })
+		for i, sg := range m.Segments {
+			if sg.TemperatureDifference != 0 && takenBy < 0 {
+				v.add(Place{Item: Item{Kind: SegmentItem, Index: i}, Property: TemperatureDifferenceProperty}, fmt.Sprintf("segment %d is warmer on one face than the other, but no load case takes the temperature differences, so they would act in none: mark the case they belong to, or remove the temperature difference", i+1))
+			}
 		}
 	} else if len(m.Combinations) > 0 {
 		v.add(Place{Item: Item{Kind: CombinationItem, Index: 0}}, "there are combinations but no load cases to combine: add load cases, or delete the combinations")
@@ -498,8 +506,10 @@ func (v *validator) shearDeformation(i int, s Segment) {
 
 // hinges checks the moment releases: inside the member, one per point, not
 // where a support holds the rotation (which side would it hold?), not as a
-// pure hinge at a support that lets the member turn (that support already
-// frees the joint; a semi-rigid joint there is kept), a
+// pure hinge at a support that holds the deflection rigidly and lets the
+// member turn (that support already frees the joint and cuts the member in
+// two; a semi-rigid joint there is kept; a spring across or an axial
+// support leaves the parts joined), a
 // spring stiffness in range, and not on an axial-only member.
 func (v *validator) hinges(m *Model, lengthKnown bool) {
 	for i, h := range m.Hinges {
@@ -523,7 +533,7 @@ func (v *validator) hinges(m *Model, lengthKnown bool) {
 			}
 			if s.Holds(Rotation) {
 				v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), which holds the rotation: it cannot say which side the support holds; move the hinge off the support, or choose a support kind that lets the member turn (pinned, roller)", i+1, k+1, fmtMetres(h.X)))
-			} else if h.Stiffness == 0 {
+			} else if h.Stiffness == 0 && s.Kind.Restrains(Transverse) {
 				v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), a %s support that already lets the member turn there: a pure hinge would cut the member into separate spans; check each span as its own member, move the hinge into the span, or give it a rotational stiffness for a semi-rigid joint over the support", i+1, k+1, fmtMetres(h.X), s.Kind))
 			}
 		}
@@ -618,6 +628,21 @@ func (v *validator) pointLoads(loads []PointLoad, lengthKnown bool) {
 		v.finite(at(AxialForceProperty), "the axial force", p.Axial, "N")
 		v.finite(at(TransverseForceProperty), "the transverse force", p.Transverse, "N")
 		v.finite(at(MomentProperty), "the moment", p.Moment, "N·m")
+		v.momentAtHinge(at(PositionProperty), i, p)
+	}
+}
+
+// momentAtHinge refuses a point moment at a hinge: it turns one of the two
+// parts the hinge joins, and the model cannot say which (the solutions
+// would each pick a side, and not the same one).
+func (v *validator) momentAtHinge(at Place, i int, p PointLoad) {
+	if p.Moment == 0 || !isFinite(p.X) {
+		return
+	}
+	for j, h := range v.modelHinges {
+		if math.Abs(h.X-p.X) <= v.tol {
+			v.add(at, fmt.Sprintf("point load %d puts a moment on hinge %d (x = %s), which turns only one of the two parts the hinge joins, and the model cannot say which: move the load a little to the left or the right of the hinge, onto the part it turns", i+1, j+1, fmtMetres(h.X)))
+		}
 	}
 }
 

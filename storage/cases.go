@@ -22,6 +22,7 @@ type (
 		SelfWeight        bool   `json:"self_weight,omitempty"`
 		TemperatureChange number `json:"temperature_change,omitempty"`
 		Settlements       bool   `json:"settlements,omitempty"`
+		Gradient          bool   `json:"temperature_differences,omitempty"`
 		BySpan            bool   `json:"by_span,omitempty"`
 	}
 	fileCombination struct {
@@ -46,7 +47,7 @@ func (c *converter) cases(p *Project) ([]fileCase, []fileCombination) {
 	var cases []fileCase
 	for k, lc := range m.Cases {
 		path := fmt.Sprintf("cases[%d]", k)
-		fc := fileCase{Name: lc.Name, SelfWeight: lc.SelfWeight, Settlements: lc.Settlements, BySpan: lc.BySpan,
+		fc := fileCase{Name: lc.Name, SelfWeight: lc.SelfWeight, Settlements: lc.Settlements, Gradient: lc.ThermalGradient, BySpan: lc.BySpan,
 			TemperatureChange: c.num(path+".temperature_change", lc.TemperatureChange)}
 		for i, ref := range orderedLoads(caseOrder(p, k), len(lc.PointLoads), len(lc.DistributedLoad)) {
 			lp := fmt.Sprintf("%s.loads[%d]", path, i)
@@ -105,6 +106,7 @@ func (r *reader) cases(p *Project, top *fields) {
 		lc.SelfWeight = f.flag("self_weight", false)
 		lc.TemperatureChange = f.number("temperature_change", "K", false)
 		lc.Settlements = f.flag("settlements", false)
+		lc.ThermalGradient = f.flag("temperature_differences", false)
 		lc.BySpan = f.flag("by_span", false)
 		f.finish()
 		p.Model.Cases = append(p.Model.Cases, lc)

@@ -19,7 +19,7 @@ func casesProject() *Project {
 	p := goldenProject()
 	m := &p.Model
 	m.Cases = []fem.LoadCase{
-		{Name: "permanent", PointLoads: m.PointLoads, SelfWeight: true, Settlements: true},
+		{Name: "permanent", PointLoads: m.PointLoads, SelfWeight: true, Settlements: true, ThermalGradient: true},
 		{Name: "imposed", DistributedLoad: m.DistributedLoad, BySpan: true},
 		{Name: "thermal", TemperatureChange: m.TemperatureChange},
 	}
@@ -49,7 +49,7 @@ func TestCasesRoundTrip(t *testing.T) {
 	if again := mustMarshal(t, back); string(again) != string(data) {
 		t.Errorf("saving the loaded project changed the file:\n%s", lineDiff(data, again))
 	}
-	for _, want := range []string{`"by_span": true`, `"case": "imposed"`, `"kind": "serviceability"`, `"factor": 0`, `"settlements": true`} {
+	for _, want := range []string{`"by_span": true`, `"case": "imposed"`, `"kind": "serviceability"`, `"factor": 0`, `"settlements": true`, `"temperature_differences": true`} {
 		if !strings.Contains(string(data), want) {
 			t.Errorf("the file lacks %s", want)
 		}

@@ -123,6 +123,10 @@ func (a *Analysis) Findings() []Finding {
 	if msg := a.Exact.Warning(); msg != "" {
 		out = append(out, finding(CodeCondition, "exact solution", msg))
 	}
+	if se := (*fem.SingularError)(nil); a.Exact == nil && errors.As(a.ExactErr, &se) {
+		out = append(out, finding(CodeCondition, "exact solution",
+			"The exact solution's equations are singular or nearly so: the model has supports, hinges or loads almost at one point, or stiffnesses far apart, and its finite element answer sits on the same near-singular equations. Its values may be meaningless (a shear force in a very short element above all): move the items apart or together, or bring the stiffnesses closer."))
+	}
 	if a.Exact == nil && a.ExactErr != nil {
 		out = append(out, finding(CodeNoExact, "no exact solution: values are the finite element ones",
 			fmt.Sprintf("There is no exact solution of this model (%v), so every value reported is the finite element one, labelled FE, and its error is not measured: a peak between nodes may be missed. Refine the mesh and compare to be sure.", a.ExactErr)))
