@@ -251,11 +251,12 @@ func NewProbe(m *fem.Model, s *fem.Solution, e *fem.Exact) *Probe {
 	els := s.Mesh.Elements
 	p.partCover, p.columnCover = newCover(els, len(p.parts)), newCover(els, len(p.columns))
 	p.chords = make([][2]chordLine, len(p.parts))
+	tilts := settlementTilts(s, m, p.parts)
 	for k, st := range p.parts {
 		p.partCover.set(k, st.a, st.b)
-		p.chords[k][0] = newChord(s, st)
+		p.chords[k][0] = newChord(s, st, tilts[k])
 		if e != nil {
-			p.chords[k][1] = newChord(e, st)
+			p.chords[k][1] = newChord(e, st, tilts[k])
 		}
 	}
 	for k, c := range p.columns {

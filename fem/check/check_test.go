@@ -134,6 +134,47 @@ func TestCantileverDeflectionLimit(t *testing.T) {
 	}
 }
 
+// A settlement moves an overhang or a cantilever as a rigid body, which the
+// deflection check leaves out as it does in a span: with or without it the
+// tip of an overhang a beyond a span L under P at the tip deflects
+// P·a²·(L + a)/(3EI) (Roark's Formulas for Stress and Strain, Table 8.1,
+// overhanging beam, from memory), and a cantilever P·L³/(3EI) (Gere &
+// Goodno, Table G-1, from memory). EI = 1.3333e7 N·m² (beam above).
+func TestDeflectionLeavesSettlementOut(t *testing.T) {
+	const ei = 200e9 * 0.1 * 0.008 / 12
+	settled := func(kind fem.SupportKind, x, w, theta float64) fem.Support {
+		return fem.Support{X: x, Kind: kind, Settlement: [3]float64{0, w, theta}}
+	}
+	overhang := 5e3 * 1 * 1 * (5 + 1) / (3 * ei)
+	// The span between the supports bows up by P·a·L²/(9·√3·EI) at
+	// x = L/√3 (AISC Manual, beam overhanging one support, from memory).
+	spanUp := 5e3 * 1 * 25 / (9 * math.Sqrt(3) * ei)
+	tests := []struct {
+		name     string
+		length   float64
+		supports []fem.Support
+		check    string
+		want     float64
+	}{
+		{"overhang, no settlement", 6, []fem.Support{settled(fem.Pinned, 0, 0, 0), settled(fem.Roller, 5, 0, 0)}, "Deflection, cantilever", overhang},
+		{"overhang, its own support settles", 6, []fem.Support{settled(fem.Pinned, 0, 0, 0), settled(fem.Roller, 5, -0.01, 0)}, "Deflection, cantilever", overhang},
+		{"overhang, the far support settles", 6, []fem.Support{settled(fem.Pinned, 0, -0.01, 0), settled(fem.Roller, 5, 0, 0)}, "Deflection, cantilever", overhang},
+		{"span beside it, a support settles", 6, []fem.Support{settled(fem.Pinned, 0, -0.01, 0), settled(fem.Roller, 5, 0, 0)}, "Deflection, span", spanUp},
+		{"cantilever settled across and in rotation", 2, []fem.Support{settled(fem.Fixed, 0, -0.01, -0.002)}, "Deflection, cantilever", 5e3 * 8 / (3 * ei)},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			m := beam(tt.length, tt.supports, 0)
+			m.PointLoads = []fem.PointLoad{{X: tt.length, Transverse: -5e3}}
+			s, e := solveBoth(t, &m)
+			r := find(t, Run(&m, s, e, Options{}), tt.check)
+			if !near(r.Value, tt.want, 1e-9) || !near(r.FE, tt.want, 1e-9) {
+				t.Errorf("%s: exact %g, FE %g; want %g", tt.check, r.Value, r.FE, tt.want)
+			}
+		})
+	}
+}
+
 // Theoretical effective length factors are the roots of the buckling
 // equations of an elastic column (Timoshenko & Gere, Theory of Elastic
 // Stability, ch. 2, from memory): with k² = P/EI, fixed–pinned has

@@ -152,24 +152,63 @@ func deflectionChecks(p *Probe, o Options) []Result {
 }
 
 // chordLine is the deflection of the supports of a part in one solution:
-// the straight line through both supports of a span, or the support's own
-// deflection for an overhang (dw = 0). A walk reads it twice per element,
-// so it holds what at needs and nothing to choose between.
+// the straight line through both supports of a span; for an overhang, the
+// line through its support at the tilt that settlements alone give it (see
+// settlementTilts). A walk reads it twice per element, so it holds what at
+// needs and nothing to choose between.
 type chordLine struct {
 	a, span float64 // the part's start and length, m
 	w0, dw  float64 // the deflection at a, and its change over the span, m
 }
 
-func newChord(src fem.Field, st stretch) chordLine {
+// newChord is the chord of part st in solution src; tilt is the part's
+// settlementTilts, so that settlement counts no more on an overhang than in
+// a span.
+func newChord(src fem.Field, st stretch, tilt float64) chordLine {
 	wa, wb := src.At(st.a, fem.Right).Deflection, src.At(st.b, fem.Left).Deflection
 	c := chordLine{a: st.a, span: st.b - st.a, w0: wa, dw: wb - wa}
 	switch {
 	case !st.support[0]:
-		c.w0, c.dw = wb, 0
+		c.w0, c.dw = wb-tilt*c.span, tilt*c.span
 	case !st.support[1]:
-		c.dw = 0
+		c.dw = tilt * c.span
 	}
 	return c
+}
+
+// settlementTilts is, per part, the slope (rad) at which settlements
+// alone tilt an overhang as a rigid body, and 0 for a span: the slope of
+// the chord of the span beside it, or, on a lone support that holds
+// rotation, the rotation it imposes. It is read off the finite element
+// solution fe, whose held motions are the prescribed values exactly (a
+// load case's own settlements among them), so without settlements every
+// tilt is exactly 0.
+func settlementTilts(fe fem.Field, m *fem.Model, parts []stretch) []float64 {
+	tilts := make([]float64, len(parts))
+	for k, st := range parts {
+		if !st.overhangs {
+			continue
+		}
+		at, side, beside := st.a, fem.Right, k-1 // the support, the overhang's side of it, the part past it
+		if !st.support[0] {
+			at, side, beside = st.b, fem.Left, k+1
+		}
+		if beside >= 0 && beside < len(parts) && !parts[beside].overhangs {
+			c := newChord(fe, parts[beside], 0)
+			tilts[k] = c.dw / c.span
+		} else if holdsRotation(m, at) {
+			tilts[k] = fe.At(at, side).Rotation
+		}
+	}
+	return tilts
+}
+
+// holdsRotation says whether a support at x holds rotation rigidly.
+func holdsRotation(m *fem.Model, x float64) bool {
+	tol := 1e-9 * m.Length()
+	return slices.ContainsFunc(m.Supports, func(s fem.Support) bool {
+		return math.Abs(s.X-x) <= tol && s.Kind.Restrains(fem.Rotation)
+	})
 }
 
 // at is the chord's deflection at x.

@@ -65,6 +65,7 @@ type sampledPeaks struct {
 // exact solution e (source 1), with the sizes of both.
 func sampledProbe(m *fem.Model, s *fem.Solution, e *fem.Exact, source int) sampledPeaks {
 	parts, cols := stretches(m), columns(m)
+	tilts := settlementTilts(s, m, parts)
 	out := sampledPeaks{stress: make([]float64, len(m.Segments)), deflection: make([]float64, len(parts)), compression: make([]float64, len(cols))}
 	for i, el := range s.Mesh.Elements {
 		for j := 0; j <= 400; j++ {
@@ -82,7 +83,7 @@ func sampledProbe(m *fem.Model, s *fem.Solution, e *fem.Exact, source int) sampl
 				out.stress[el.Segment] = math.Max(out.stress[el.Segment], math.Abs(f.CombinedStress))
 				for p, st := range parts {
 					if x >= st.a && x <= st.b && el.End > st.a && el.Start < st.b {
-						c := newChord([]fem.Field{s, e}[k], st)
+						c := newChord([]fem.Field{s, e}[k], st, tilts[p])
 						out.deflection[p] = math.Max(out.deflection[p], math.Abs(f.Deflection-c.at(x)))
 					}
 				}
