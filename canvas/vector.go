@@ -121,7 +121,11 @@ func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, style paintSty
 			c.Stroke(p)
 		})
 	}
-	for _, it := range s.Items {
+	items := s.Items
+	if raster {
+		items = clipItems(items, Point{-clipMargin, -clipMargin}, Point{s.Width + clipMargin, s.Height + clipMargin})
+	}
+	for _, it := range items {
 		if !drawable(it) {
 			continue // an overflowed curve: nothing to draw, and it hangs the rasterizer
 		}
