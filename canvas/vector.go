@@ -28,6 +28,17 @@ const (
 	forPDF
 )
 
+// drawable says every coordinate and length of it is a finite number.
+func drawable(it Item) bool {
+	at := func(p Point) bool { return finite(vg.Point{X: vg.Length(p.X), Y: vg.Length(p.Y)}) }
+	for _, p := range it.Points {
+		if !at(p) {
+			return false
+		}
+	}
+	return at(it.Center) && at(it.At) && at(Point{it.Radius, 0})
+}
+
 // drawScene draws s onto c with its top-left corner at origin (in c's
 // y-up coordinates, the top edge is origin.Y) and every length times k.
 // PNG, SVG, PDF and the calculation sheet all go through here, so they
@@ -110,7 +121,14 @@ func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, style paintSty
 			c.Stroke(p)
 		})
 	}
-	for _, it := range s.Items {
+	items := s.Items
+	if raster {
+		items = clipItems(items, Point{-clipMargin, -clipMargin}, Point{s.Width + clipMargin, s.Height + clipMargin})
+	}
+	for _, it := range items {
+		if !drawable(it) {
+			continue // an overflowed curve: nothing to draw, and it hangs the rasterizer
+		}
 		switch it.Kind {
 		case Polyline:
 			if len(it.Points) < 2 {

@@ -1,6 +1,7 @@
 package canvas
 
 import (
+	"bytes"
 	"image/color"
 	"math"
 	"testing"
@@ -60,6 +61,34 @@ func TestSuperscriptsInExports(t *testing.T) {
 		}
 		if end := float64(x - got[0].Point.X); math.Abs(end-float64(textWidth(text, size, false))) > 1e-3 {
 			t.Errorf("style %d: the runs take %v, the layout measured %v", style, end, textWidth(text, size, false))
+		}
+	}
+}
+
+// Items whose coordinates overflowed (a deflection magnified beyond
+// float32, a diagram scaled by a denormal peak) are left out of every
+// export: in SVG and PDF they were "NaN" and "Inf" text, and the PNG
+// rasterizer never finished on them.
+func TestNonFiniteItemsAreLeftOut(t *testing.T) {
+	inf, nan := float32(math.Inf(1)), float32(math.NaN())
+	blue := color.NRGBA{0x1f, 0x4e, 0x9a, 0xff}
+	good := Item{Kind: Polyline, Points: []Point{{10, 10}, {90, 40}}, Stroke: blue, StrokeWidth: 1}
+	for _, bad := range []Item{
+		{Kind: Polyline, Points: []Point{{10, 10}, {inf, 40}}, Stroke: blue, StrokeWidth: 1},
+		{Kind: Polygon, Points: []Point{{10, 10}, {50, nan}, {90, 10}}, Fill: blue},
+		{Kind: Circle, Center: Point{50, 50}, Radius: inf, Stroke: blue, StrokeWidth: 1},
+	} {
+		for _, format := range []string{"svg", "png"} {
+			var want, got bytes.Buffer
+			if err := writeScene(&want, &Scene{Width: 100, Height: 60, Items: []Item{good}}, format, 1); err != nil {
+				t.Fatal(err)
+			}
+			if err := writeScene(&got, &Scene{Width: 100, Height: 60, Items: []Item{good, bad}}, format, 1); err != nil {
+				t.Fatal(err)
+			}
+			if !bytes.Equal(got.Bytes(), want.Bytes()) {
+				t.Errorf("%s with a %v item of non-finite coordinates differs from the drawing without it", format, bad.Kind)
+			}
 		}
 	}
 }

@@ -473,7 +473,9 @@ func governingWords(g GoverningJSON) string {
 // shows one solution.
 func envelopeInput(a *analysis.Analysis) *canvas.Envelope {
 	c := a.Cases
-	if c == nil || c.Show.Kind != analysis.ShowEnvelope {
+	// Without a solution (the combinations overflowed, say) the drawing
+	// shows the problem instead.
+	if c == nil || c.Show.Kind != analysis.ShowEnvelope || a.Solution == nil {
 		return nil
 	}
 	names := make([]string, len(c.Combinations))

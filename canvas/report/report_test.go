@@ -92,3 +92,34 @@ func TestExportUnsolvable(t *testing.T) {
 		t.Errorf("results table of a mechanism gave %v, want an error naming the free motion", err)
 	}
 }
+
+// An envelope whose combinations overflow still gives a drawing and a
+// sheet, with the problem written on them, not a crash.
+func TestExportEnvelopeOverflow(t *testing.T) {
+	p, err := storage.Load("../../testdata/two_span_cases.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i := range p.Model.Combinations {
+		for j := range p.Model.Combinations[i].Factors {
+			p.Model.Combinations[i].Factors[j].Factor = 1e308
+		}
+	}
+	for _, product := range []string{"svg", "sheet-pdf"} {
+		var buf bytes.Buffer
+		src, err := Export(context.Background(), &buf, p, product, Options{})
+		if err != nil {
+			t.Fatalf("%s of an overflowing envelope: %v", product, err)
+		}
+		if src.Analysis.Err == nil || !strings.Contains(src.Analysis.Err.Error(), "too large") {
+			t.Errorf("%s: the analysis gave %v, want the overflow", product, src.Analysis.Err)
+		}
+	}
+	var svg bytes.Buffer
+	if _, err := Export(context.Background(), &svg, p, "svg", Options{}); err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(svg.String(), "too large") {
+		t.Error("the drawing of an overflowing envelope does not say the results are too large")
+	}
+}

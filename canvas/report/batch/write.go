@@ -76,13 +76,23 @@ type textWriter struct {
 func (t *textWriter) Member(m Member) error {
 	mark, governing, utilisation, deflection := dash(m.Mark), "-", "-", "-"
 	if g := m.Governing; g != nil {
-		governing, utilisation = g.Name, fmt.Sprintf("%.2f", g.Utilisation)
+		governing, utilisation = g.Name, utilisationText(g.Utilisation)
 	}
 	if d := m.Deflection; d != nil {
 		deflection = deflectionText(d)
 	}
 	t.rows = append(t.rows, strings.Join([]string{m.File, mark, m.Status.String(), governing, utilisation, deflection, dash(warningText(m))}, "\t"))
 	return nil
+}
+
+// utilisationText is u to two decimals, or to three figures from a million
+// up, where the decimals would run to hundreds of digits (a safety factor
+// of 1e300, say) and widen the whole column.
+func utilisationText(u float64) string {
+	if math.Abs(u) >= 1e6 {
+		return fmt.Sprintf("%.3g", u)
+	}
+	return fmt.Sprintf("%.2f", u)
 }
 
 // dash stands for an empty cell.
@@ -104,7 +114,7 @@ func (t *textWriter) Close(s Summary) error {
 	tw.Flush()
 	fmt.Fprintf(bw, "\n%d members: %d ok, %d caution, %d failed a check, %d refused\n", s.Members, s.OK, s.Caution, s.Failed, s.Refused)
 	if h := s.Highest; h != nil {
-		fmt.Fprintf(bw, "Highest utilisation: %.2f, %s, in %s\n", h.Utilisation, h.Name, h.Who)
+		fmt.Fprintf(bw, "Highest utilisation: %s, %s, in %s\n", utilisationText(h.Utilisation), h.Name, h.Who)
 	}
 	if d := s.Deflection; d != nil {
 		fmt.Fprintf(bw, "Largest deflection for its limit: %s, %s, in %s\n", deflectionText(&d.Deflection), d.Name, d.Who)
