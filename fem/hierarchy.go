@@ -430,23 +430,13 @@ func (r *stretchRefiner) pointsOn(lo, m, hi int) (bar, w, theta float64) {
 // interval of it enters, so that the jobs cut for two goroutines refine to
 // the same bits as one walk of the stretch.
 func (r *stretchRefiner) enter(lo, hi int) bool {
-	s := r.stretch
-	x0, x1 := r.x[lo], r.x[hi]
-	i := sort.Search(len(s.breaks), func(i int) bool { return s.breaks[i].x > x0 })
-	if i < len(s.breaks) && s.breaks[i].x < x1 {
+	pc, ok := r.stretch.pieceOver(r.x[lo], r.x[hi])
+	if !ok {
 		return false
 	}
-	a, b := s.start, s.start+s.length
-	p, q := [2]float64{s.axialLoad[0], s.transverseLoad[0]}, [2]float64{s.axialLoad[1], s.transverseLoad[1]}
-	if i > 0 {
-		a, p = s.breaks[i-1].x, s.breaks[i-1].right
-	}
-	if i < len(s.breaks) {
-		b, q = s.breaks[i].x, s.breaks[i].left
-	}
-	r.linear, r.start = true, a
-	r.axial, r.axialSlope = p[0], (q[0]-p[0])/(b-a)
-	r.transverse, r.transverseSlope = p[1], (q[1]-p[1])/(b-a)
+	r.linear, r.start = true, pc.a
+	r.axial, r.axialSlope = pc.va[0], (pc.vb[0]-pc.va[0])/(pc.b-pc.a)
+	r.transverse, r.transverseSlope = pc.va[1], (pc.vb[1]-pc.va[1])/(pc.b-pc.a)
 	return true
 }
 
