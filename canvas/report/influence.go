@@ -173,7 +173,7 @@ func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *mo
 			fmt.Fprintf(w, "  %s: largest %s, smallest %s\n", describeTarget(*target, u),
 				trainExtremeText(tr.Largest, kind, u, false), trainExtremeText(tr.Smallest, kind, u, false))
 		case target != nil:
-			fmt.Fprintf(w, "  %s: 0 under every position; a train's loads act across the member and move no axial force or axial displacement\n", describeTarget(*target, u))
+			fmt.Fprintf(w, "  %s: 0 wherever the train stands; a train's loads act across the member and move no axial force or axial displacement\n", describeTarget(*target, u))
 		}
 		if tr.Envelope == nil {
 			continue
