@@ -236,11 +236,28 @@ func describeTarget(t moving.Target, u units.System) string {
 // describeTrain says what a train is, in one line.
 func describeTrain(t *moving.Train, label string, L float64, u units.System) string {
 	s := label + ":"
-	for i, a := range t.Axles {
-		if i > 0 {
-			s += fmt.Sprintf(" –%s–", u.Format(units.Position, a.Spacing))
+	axles := t.Axles
+	if len(axles) > 0 {
+		s += " " + u.Format(units.Force, axles[0].Load)
+		axles = axles[1:]
+	}
+	// A run of equal axles at equal spacing is written once with its count:
+	// a long train would otherwise fill a page with one line.
+	for len(axles) > 0 {
+		a, k := axles[0], 1
+		for k < len(axles) && axles[k] == a {
+			k++
 		}
-		s += " " + u.Format(units.Force, a.Load)
+		if k > 2 {
+			s += fmt.Sprintf(" then %d times", k)
+		} else {
+			k = 1
+		}
+		s += fmt.Sprintf(" –%s– %s", u.Format(units.Position, a.Spacing), u.Format(units.Force, a.Load))
+		axles = axles[k:]
+	}
+	if n := len(t.Axles); n > 3 {
+		s += fmt.Sprintf("; %d axles over %s", n, u.Format(units.Position, t.Length()))
 	}
 	if ul := t.Uniform; ul.Load > 0 {
 		s += fmt.Sprintf("; %s over %s from %s behind the front", u.Format(units.LineLoad, ul.Load), u.Format(units.Position, ul.Length), u.Format(units.Position, ul.Start))

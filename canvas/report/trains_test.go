@@ -269,3 +269,33 @@ func TestTrainOnAxialTargetSaysNone(t *testing.T) {
 		}
 	}
 }
+
+// A train's line names a run of equal axles at equal spacing once, with
+// its count, and the whole train's axles and length; a short train keeps
+// every axle. The loads and spacings are invented demo data; the length is
+// their sum (Train.Length).
+func TestDescribeTrainGroupsEqualAxles(t *testing.T) {
+	long := moving.Train{Axles: []moving.Axle{{Load: 20e3}}}
+	for range 40 {
+		long.Axles = append(long.Axles, moving.Axle{Load: 5e3, Spacing: 0.25})
+	}
+	long.Axles = append(long.Axles, moving.Axle{Load: 20e3, Spacing: 1})
+	tests := []struct {
+		name  string
+		train moving.Train
+		want  string
+	}{
+		{"two axles", moving.Train{Axles: []moving.Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}},
+			"t: 42.00 kN –3.200 m– 42.00 kN; runs"},
+		{"two equal after the first", moving.Train{Axles: []moving.Axle{{Load: 6e3}, {Load: 9e3, Spacing: 1.1}, {Load: 9e3, Spacing: 1.1}}},
+			"t: 6.000 kN –1.100 m– 9.000 kN –1.100 m– 9.000 kN; runs"},
+		{"a run of forty", long,
+			"t: 20.00 kN then 40 times –0.2500 m– 5.000 kN –1.000 m– 20.00 kN; 42 axles over 11.00 m; runs"},
+	}
+	for _, tc := range tests {
+		got := describeTrain(&tc.train, "t", 20, units.SI)
+		if !strings.HasPrefix(got, tc.want) {
+			t.Errorf("%s: %q, want it to start %q", tc.name, got, tc.want)
+		}
+	}
+}
