@@ -55,6 +55,7 @@ func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
 	r.places = places
 	ends := [2]float64{r.u0, r.u1}
 	var f [maxReaders]poly
+	summed := -1 // stretches since f was summed afresh; −1 before the first
 	for i := 1; i < len(br); i++ {
 		a, b := br[i-1], br[i]
 		if b < a || (b == a && r.n > 1) {
@@ -69,24 +70,25 @@ func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
 			continue
 		}
 		mid := 0.5 * (a + b)
-		for i := range n {
-			f[i] = poly{}
+		// f holds every axle's term on the piece it stood on at the last
+		// stretch evaluated: a long train moves a few axles to another
+		// piece per stretch, so f takes their change alone (summing every
+		// axle on every stretch cost the square of the axles), and is
+		// summed afresh every resumEvery stretches, against drift, and
+		// always for a short train.
+		full := summed < 0 || summed == resumEvery || len(r.axles) <= shortTrain
+		if full {
+			f = [maxReaders]poly{}
+			summed = 0
 		}
+		summed++
 		for k, ax := range r.axles {
-			p := ls.advance(&places[k], mid+ax.offset)
-			g := r.axleTerms[(k*ls.pieces()+p)*n:]
-			for i := range n {
-				f[i].add(ax.load, &g[i])
-			}
+			move(ls, f[:n], &places[k], mid+ax.offset, ax.load, r.axleTerms[k*ls.pieces()*n:], full)
 		}
 		if r.uniform {
 			for e, off := range ends {
-				p := ls.advance(&places[len(r.axles)+e], mid+off)
-				g := r.uniformTerms[(e*ls.pieces()+p)*n:]
 				sign := float64(2*e - 1) // the integral to the far end less that to the near one
-				for i := range n {
-					f[i].add(sign*r.q, &g[i])
-				}
+				move(ls, f[:n], &places[len(r.axles)+e], mid+off, sign*r.q, r.uniformTerms[e*ls.pieces()*n:], full)
 			}
 		}
 		for i := range n {
@@ -106,6 +108,36 @@ func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
 	}
 	if len(jumps) > 0 {
 		r.scanJumps(ls, hi, lo, jumps)
+	}
+}
+
+// A train of at most shortTrain axles is summed afresh on every stretch of
+// positions; a longer one every resumEvery stretches (see scan).
+const (
+	shortTrain = 8
+	resumEvery = 32
+)
+
+// move advances *place to the piece of ls holding sigma, where a load c
+// stands whose terms per piece are terms (len(f) lines a piece), and adds
+// c times its terms there to f; unless full, f already holds its terms on
+// the piece it leaves, which it trades for the new (nothing when it stays).
+func move(ls *lines, f []poly, place *int, sigma, c float64, terms []poly, full bool) {
+	n := len(f)
+	old := *place
+	p := ls.advance(place, sigma)
+	if !full && p == old {
+		return
+	}
+	g := terms[p*n : p*n+n]
+	for i := range f {
+		f[i].add(c, &g[i])
+	}
+	if !full {
+		g0 := terms[old*n : old*n+n]
+		for i := range f {
+			f[i].add(-c, &g0[i])
+		}
 	}
 }
 
