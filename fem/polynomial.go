@@ -482,3 +482,18 @@ func newtonTurn(dp, ddp *Polynomial, xi float64) float64 {
 	}
 	return xi
 }
+
+// extremeTie is the relative difference within which two extremes tie:
+// round-off, which would otherwise choose between the equal peaks of a
+// symmetric member (the two spans of a symmetric continuous beam).
+const extremeTie = 1e-12
+
+// Beyond reports whether a exceeds b by more than a tie (extremeTie of the
+// smaller size; an infinite b, the start of a search, is exceeded by every
+// number): a search along the member takes a later place for its largest
+// value only then, and for its smallest only where Beyond(earlier, later),
+// so that of two equal peaks the first along the member is named
+// everywhere, in the tables, the envelopes and the drawings.
+func Beyond(a, b float64) bool {
+	return a > b && !(a-b <= extremeTie*math.Min(math.Abs(a), math.Abs(b)))
+}

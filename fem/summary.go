@@ -171,19 +171,8 @@ func (x *extremes) Visit(v *ElementView) {
 
 // ends takes the values a at x0 and b at x1 of q, the first winning a tie.
 func (x *extremes) ends(q Quantity, x0, a, x1, b float64) {
-	lo, hi := &x.lo[q], &x.hi[q]
-	if a < lo.Value {
-		*lo = Point{x0, a}
-	}
-	if a > hi.Value {
-		*hi = Point{x0, a}
-	}
-	if b < lo.Value {
-		*lo = Point{x1, b}
-	}
-	if b > hi.Value {
-		*hi = Point{x1, b}
-	}
+	x.take(q, Point{x0, a}, Point{x0, a})
+	x.take(q, Point{x1, b}, Point{x1, b})
 }
 
 // insideBeyond reports whether a value inside fe of polynomial quantity q,
@@ -207,12 +196,13 @@ func (x *extremes) insideBeyond(q Quantity, fe *Interval, a, b float64) bool {
 	return true
 }
 
-// take keeps lo and hi where they are beyond the extremes of q so far.
+// take keeps lo and hi where they are beyond the extremes of q so far by
+// more than a tie (Beyond): of equal peaks the first along the member.
 func (x *extremes) take(q Quantity, lo, hi Point) {
-	if lo.Value < x.lo[q].Value {
+	if Beyond(x.lo[q].Value, lo.Value) {
 		x.lo[q] = lo
 	}
-	if hi.Value > x.hi[q].Value {
+	if Beyond(hi.Value, x.hi[q].Value) {
 		x.hi[q] = hi
 	}
 }
