@@ -18,14 +18,18 @@ type extreme struct {
 	at    int32
 }
 
+// most takes v at position at where it is the first or beyond the largest
+// so far by more than a tie (fem.Beyond): of equal effects, round-off
+// apart, the first position (forward before backward, then along the run).
 func (e *extreme) most(v float64, at int32) {
-	if e.at < 0 || v > e.value {
+	if e.at < 0 || fem.Beyond(v, e.value) {
 		e.value, e.at = v, at
 	}
 }
 
+// least is most for the smallest.
 func (e *extreme) least(v float64, at int32) {
-	if e.at < 0 || v < e.value {
+	if e.at < 0 || fem.Beyond(e.value, v) {
 		e.value, e.at = v, at
 	}
 }
@@ -409,10 +413,10 @@ func (e *Envelope) Worst(q fem.Quantity) (hi, lo Extreme) {
 	}
 	best, least := 0, 0
 	for s := range e.Stations {
-		if e.Max[k][s] > e.Max[k][best] {
+		if fem.Beyond(e.Max[k][s], e.Max[k][best]) {
 			best = s
 		}
-		if e.Min[k][s] < e.Min[k][least] {
+		if fem.Beyond(e.Min[k][least], e.Min[k][s]) {
 			least = s
 		}
 	}
@@ -678,10 +682,10 @@ func (in *Influence) envelopeStations(s *sweeps, e *Envelope, from, to int) {
 				if q == 4 {
 					h.value, l.value = h.value*stress, l.value*stress
 				}
-				if first || h.value > e.Max[q][st] {
+				if first || fem.Beyond(h.value, e.Max[q][st]) {
 					e.Max[q][st], e.MaxAt[q][st] = h.value, h.at
 				}
-				if first || l.value < e.Min[q][st] {
+				if first || fem.Beyond(e.Min[q][st], l.value) {
 					e.Min[q][st], e.MinAt[q][st] = l.value, l.at
 				}
 			}
