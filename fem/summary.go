@@ -264,6 +264,13 @@ func withExact(list []Extreme, ex *extremes, L float64, floor [3]float64) {
 		off := math.Max(math.Abs(e.FEMax-e.Max), math.Abs(e.FEMin-e.Min))
 		if scale := fieldScale(e.Quantity, &largest, L, floor); scale > 0 {
 			e.Accuracy = off / scale
+			// A value that is round-off against the field's size (a moment
+			// at a free end, 1e-14 kN·m) is zero, as the closed form says.
+			for _, v := range [4]*float64{&e.Max, &e.Min, &e.FEMax, &e.FEMin} {
+				if math.Abs(*v) <= negligible*scale {
+					*v = 0
+				}
+			}
 		}
 	}
 }

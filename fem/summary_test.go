@@ -246,3 +246,40 @@ func TestSummaryCoarseMesh(t *testing.T) {
 		t.Errorf("worst extreme %v (%v), want the shear force", worst.Quantity, ok)
 	}
 }
+
+// Values that are zero in closed form read zero, not their round-off: a
+// cantilever fixed at x = 0 under a tip load P has M(x) = −P·(L − x), zero
+// at the free end, and θ = −P·x·(2L − x)/(2EI), zero at the fixed end (Gere
+// & Goodno, Mechanics of Materials, table of cantilever beams, from
+// memory), so the largest moment and the largest rotation are 0 exactly,
+// in the exact and the finite element columns alike; and two equal
+// extremes (the shear is −P everywhere) are named at the first place.
+func TestSummaryZeroesRoundOff(t *testing.T) {
+	const L, P = 4.0, 10e3
+	m := &Model{
+		Segments: []Segment{{Start: 0, End: L,
+			Section:  Section{Area: 4e-3, SecondMoment: 8e-6, FibreDistance: 0.1},
+			Material: Material{Elastic: 200e9}}},
+		Supports:   []Support{{X: 0, Kind: Fixed}},
+		PointLoads: []PointLoad{{X: L, Transverse: -P}},
+		Mesh:       MeshSettings{Elements: 7},
+	}
+	s, err := Solve(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sum := Summarize(s, e)
+	for _, q := range []Quantity{QBendingMoment, QBendingStress, QRotation} {
+		x := sum.Extremes[q]
+		if x.Max != 0 || x.FEMax != 0 {
+			t.Errorf("%s: largest %g (exact) and %g (FE), want 0 and 0", q, x.Max, x.FEMax)
+		}
+	}
+	if v := sum.Extremes[QShearForce]; v.XMax != 0 || v.FEXMax != 0 || v.XMin != 0 || v.FEXMin != 0 {
+		t.Errorf("constant shear: extremes at %g, %g (exact) and %g, %g (FE), want all at 0", v.XMin, v.XMax, v.FEXMin, v.FEXMax)
+	}
+}
