@@ -139,6 +139,10 @@ func (s *Summary) Worst() (Extreme, bool) {
 type extremes struct {
 	lo, hi [quantityCount]Point
 	seen   bool
+	// tie is, per quantity, a difference within which a later value ties
+	// with the extreme so far, beside Beyond's relative one: round-off
+	// against the field's size (exactExtremes); zero in a walk.
+	tie [quantityCount]float64
 }
 
 func newExtremes() *extremes {
@@ -199,10 +203,10 @@ func (x *extremes) insideBeyond(q Quantity, fe *Interval, a, b float64) bool {
 // take keeps lo and hi where they are beyond the extremes of q so far by
 // more than a tie (Beyond): of equal peaks the first along the member.
 func (x *extremes) take(q Quantity, lo, hi Point) {
-	if Beyond(x.lo[q].Value, lo.Value) {
+	if Beyond(x.lo[q].Value, lo.Value) && x.lo[q].Value-lo.Value > x.tie[q] {
 		x.lo[q] = lo
 	}
-	if Beyond(hi.Value, x.hi[q].Value) {
+	if Beyond(hi.Value, x.hi[q].Value) && hi.Value-x.hi[q].Value > x.tie[q] {
 		x.hi[q] = hi
 	}
 }
@@ -234,20 +238,32 @@ func (x *extremes) list() []Extreme {
 }
 
 // exactExtremes are the extremes of e, stretch by stretch in closed form,
-// on one reused interval.
+// on one reused interval. A second pass takes values within extremeTie of
+// each field's largest magnitude as ties, so that of the supports where a
+// deflection is zero to round-off the first is named, as the finite
+// element walk names it.
 func exactExtremes(e *Exact) *extremes {
-	x := newExtremes()
 	var v Interval
-	for j := range e.stretches {
-		st := &e.stretches[j]
-		st.interval(0, 1, st.start, st.length, &v)
-		x.seen = true
-		for q := range Quantity(quantityCount) {
-			lo, hi := v.Range(q)
-			x.take(q, lo, hi)
+	pass := func(tie *[quantityCount]float64) *extremes {
+		x := newExtremes()
+		x.tie = *tie
+		for j := range e.stretches {
+			st := &e.stretches[j]
+			st.interval(0, 1, st.start, st.length, &v)
+			x.seen = true
+			for q := range Quantity(quantityCount) {
+				lo, hi := v.Range(q)
+				x.take(q, lo, hi)
+			}
 		}
+		return x
 	}
-	return x
+	var tie [quantityCount]float64
+	first := pass(&tie)
+	for q := range tie {
+		tie[q] = extremeTie * max(math.Abs(first.lo[q].Value), math.Abs(first.hi[q].Value))
+	}
+	return pass(&tie)
 }
 
 // withExact makes the exact extremes ex the headline values of list and

@@ -283,3 +283,39 @@ func TestSummaryZeroesRoundOff(t *testing.T) {
 		t.Errorf("constant shear: extremes at %g, %g (exact) and %g, %g (FE), want all at 0", v.XMin, v.XMax, v.FEXMin, v.FEXMax)
 	}
 }
+
+// Of equal peaks the first along the member is named, in both columns: a
+// beam continuous over two equal spans L under a uniform load w sags most,
+// M = 9wL²/128 at 3L/8 from an end support, in each span alike (AISC
+// Manual, beam diagrams and formulas, continuous beam of two equal spans,
+// from memory), and its deflection is zero at all three supports.
+func TestSummaryNamesTheFirstOfEqualPeaks(t *testing.T) {
+	const L, w = 4.0, 10e3
+	m := &Model{
+		Segments: []Segment{{Start: 0, End: 2 * L,
+			Section:  Section{Area: 4e-3, SecondMoment: 8e-6, FibreDistance: 0.1},
+			Material: Material{Elastic: 200e9}}},
+		Supports:        []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}, {X: 2 * L, Kind: Roller}},
+		DistributedLoad: []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -w}, {2 * L, -w}}}},
+		Mesh:            MeshSettings{Elements: 32},
+	}
+	s, err := Solve(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sum := Summarize(s, e)
+	mo := sum.Extremes[QBendingMoment]
+	if want := 9 * w * L * L / 128; math.Abs(mo.Max-want) > 1e-9*want || math.Abs(mo.XMax-3*L/8) > 1e-9*L {
+		t.Errorf("exact largest moment %g at %g m, want %g at %g m", mo.Max, mo.XMax, want, 3*L/8)
+	}
+	if mo.FEXMax > L {
+		t.Errorf("finite element largest moment named at %g m, in the second span; the first span's peak is equal", mo.FEXMax)
+	}
+	if d := sum.Extremes[QDeflection]; d.Max != 0 || d.XMax != 0 || d.FEMax != 0 || d.FEXMax != 0 {
+		t.Errorf("largest deflection %g at %g m (exact), %g at %g m (FE), want 0 at the first support", d.Max, d.XMax, d.FEMax, d.FEXMax)
+	}
+}
