@@ -681,7 +681,9 @@ func TestExportExitStatus(t *testing.T) {
 	}
 }
 
-// Each command's --help lists its flags on standard output and exits 0.
+// Each command's --help lists its flags on standard output and exits 0
+// (check and bench said "flag: help requested" with the general usage and
+// exit 2).
 func TestCommandHelp(t *testing.T) {
 	for _, c := range []struct {
 		command string
@@ -690,6 +692,9 @@ func TestCommandHelp(t *testing.T) {
 		{"solve", []string{"-json", "-units"}},
 		{"export", []string{"-out", "-sheet", "-points", "-units"}},
 		{"converge", []string{"-json", "-max", "-target"}},
+		{"influence", []string{"-quantity", "-at", "-envelope", "-units"}},
+		{"check", []string{"usage: stave check [flags] FILE... | DIR", "-json", "-csv", "-workers"}},
+		{"bench", []string{"usage: stave bench [flags]\n", "-json", "-quick"}},
 	} {
 		code, out, stderr := runStave(t, c.command, "--help")
 		if code != 0 || stderr != "" {

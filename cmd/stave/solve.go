@@ -6,6 +6,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"strings"
 
 	"stave/canvas/report"
 	"stave/fem/analysis"
@@ -104,19 +105,31 @@ func newFlagSet(name string) *flag.FlagSet {
 	return fs
 }
 
+// parseFlags parses args with fs. With --help it prints the command's
+// usage, its operands after the flags, and its flags to stdout and returns
+// helpShown; misuse is a usageError.
+func parseFlags(fs *flag.FlagSet, args []string, stdout io.Writer, operands string) error {
+	err := fs.Parse(args)
+	switch {
+	case errors.Is(err, flag.ErrHelp):
+		fmt.Fprintf(stdout, "usage: %s\n\nflags:\n", strings.TrimSpace("stave "+fs.Name()+" [flags] "+operands))
+		fs.SetOutput(stdout)
+		fs.PrintDefaults()
+		return helpShown
+	case err != nil:
+		return usageError{fmt.Sprintf("%s: %v", fs.Name(), err)}
+	}
+	return nil
+}
+
 // parseOneFile parses flags that may come before or after a single file
 // name. With --help it prints the command's flags to stdout and returns
 // helpShown.
 func parseOneFile(fs *flag.FlagSet, args []string, stdout io.Writer) (string, error) {
 	var files []string
 	for {
-		if err := fs.Parse(args); errors.Is(err, flag.ErrHelp) {
-			fmt.Fprintf(stdout, "usage: stave %s [flags] FILE\n\nflags:\n", fs.Name())
-			fs.SetOutput(stdout)
-			fs.PrintDefaults()
-			return "", helpShown
-		} else if err != nil {
-			return "", usageError{fmt.Sprintf("%s: %v", fs.Name(), err)}
+		if err := parseFlags(fs, args, stdout, "FILE"); err != nil {
+			return "", err
 		}
 		if fs.NArg() == 0 {
 			break
