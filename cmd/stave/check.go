@@ -86,7 +86,7 @@ func checkCommand(args []string, stdout, stderr io.Writer) error {
 	case batch.Refused:
 		return statusError{1, fmt.Sprintf("%d of %d members refused (%d failed a check): their lines say why", sum.Refused, sum.Members, sum.Failed)}
 	case batch.Failed:
-		return statusError{3, fmt.Sprintf("%d of %d members failed a check: their lines say which", sum.Failed, sum.Members)}
+		return inDocument(statusError{3, fmt.Sprintf("%d of %d members failed a check: their lines say which", sum.Failed, sum.Members)}, *asJSON)
 	}
 	return nil
 }

@@ -56,5 +56,5 @@ func convergeCommand(args []string, stdout io.Writer) error {
 	} else {
 		report.WriteConvergenceText(stdout, path, table, versus, findings)
 	}
-	return failures(path, findings)
+	return inDocument(failures(path, findings), *asJSON)
 }

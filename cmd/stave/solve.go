@@ -90,12 +90,7 @@ func solveCommand(args []string, stdout io.Writer) error {
 	if a.Err != nil {
 		return modelError{fmt.Errorf("%s: %w", path, a.Err)}
 	}
-	err = failures(path, src.Findings)
-	if cf, ok := err.(checkFailed); ok && *asJSON {
-		cf.quiet = true // the document says so: check_failed and its warnings
-		return cf
-	}
-	return err
+	return inDocument(failures(path, src.Findings), *asJSON)
 }
 
 // newFlagSet makes a flag set that reports misuse as an error, not an exit.
