@@ -410,7 +410,7 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 		it := Item{Kind: SupportItem, Index: i}
 		if v.position(Place{Item: it, Property: PositionProperty}, "its position", s.X, lengthKnown) {
 			if j := earlier[i]; j >= 0 {
-				v.add(Place{Item: it, Property: PositionProperty}, fmt.Sprintf("supports %d and %d are both at x = %s: keep one support per point and choose a kind that restrains all the motions you need", j+1, i+1, fmtMetres(s.X)))
+				v.add(Place{Item: it, Property: PositionProperty}, fmt.Sprintf("supports %d and %d %s: keep one support per point and choose a kind that restrains all the motions you need", j+1, i+1, atOnePoint(sups[j].X, s.X)))
 			}
 		}
 		if s.Kind < Fixed || s.Kind > Spring {
@@ -524,7 +524,7 @@ func (v *validator) hinges(m *Model, lengthKnown bool) {
 		}
 		for j := 0; j < i; j++ {
 			if math.Abs(m.Hinges[j].X-h.X) <= v.tol {
-				v.add(at, fmt.Sprintf("hinges %d and %d are both at x = %s: keep one hinge per point", j+1, i+1, fmtMetres(h.X)))
+				v.add(at, fmt.Sprintf("hinges %d and %d %s: keep one hinge per point", j+1, i+1, atOnePoint(m.Hinges[j].X, h.X)))
 			}
 		}
 		for k, s := range m.Supports {
@@ -791,6 +791,16 @@ func fmtPair(a, b float64) (string, string) {
 			return sa, sb
 		}
 	}
+}
+
+// atOnePoint says that two items at a and b, within the merge tolerance of
+// each other, stand at one point: "are both at x = 2.0 m", or, where their
+// places print apart (0 and 1e-12 m), both places and why.
+func atOnePoint(a, b float64) string {
+	if fmtNumber(a) == fmtNumber(b) {
+		return "are both at x = " + fmtMetres(b)
+	}
+	return fmt.Sprintf("are at x = %s and x = %s, which count as one point (closer than %g of the member's length)", fmtMetres(a), fmtMetres(b), mergeTolerance)
 }
 
 // fmtMetres prints a position for messages, e.g. "3.2 m".
