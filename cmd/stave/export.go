@@ -37,8 +37,8 @@ func exportCommand(args []string, stdout io.Writer) error {
 	if *out == "" {
 		return usageError{"export needs --out NAME.png, NAME.svg, NAME.pdf or NAME.csv"}
 	}
-	if *dpi < 0 || *width < 0 || *height < 0 {
-		return usageError{"--dpi, --width and --height must be positive"}
+	if err := report.CheckSize(*width, *height, *dpi); err != nil {
+		return usageError{fmt.Sprintf("--width, --height, --dpi: %v", err)}
 	}
 	kind, err := exportKind(*out, *sheet)
 	if err != nil {

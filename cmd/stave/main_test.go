@@ -259,6 +259,35 @@ func TestExportMisuse(t *testing.T) {
 	}
 }
 
+// Drawing sizes and densities no drawing can have are misuse, refused at
+// once with the range (a width of 10⁹ points ran the vector drawings out of
+// memory, a fatal error; an infinite one panicked; a NaN density reached the
+// drawing and a tiny one the PNG encoder), and no file is written.
+func TestExportRefusesImpossibleSizes(t *testing.T) {
+	dir := t.TempDir()
+	for _, c := range []struct {
+		out, flag, value, phrase string
+	}{
+		{"x.svg", "--width", "1e9", "a drawing width of 1e+09 points: give 1 to 20000 points"},
+		{"x.pdf", "--height", "1e300", "a drawing height of 1e+300 points"},
+		{"x.png", "--width", "Inf", "a drawing width of +Inf points"},
+		{"x.svg", "--width", "NaN", "a drawing width of NaN points"},
+		{"x.svg", "--width", "1e-300", "a drawing width of 1e-300 points"},
+		{"x.png", "--height", "-1", "a drawing height of -1 points"},
+		{"x.png", "--dpi", "NaN", "a density of NaN dpi: give 1 to 20000 dpi"},
+		{"x.png", "--dpi", "1e-300", "a density of 1e-300 dpi"},
+	} {
+		out := filepath.Join(dir, c.out)
+		code, _, stderr := runStave(t, "export", "../../testdata/demo.json", "--out", out, c.flag, c.value)
+		if code != 2 || !strings.Contains(stderr, c.phrase) {
+			t.Errorf("%s %s: exit %d, want 2 with %q; stderr %s", c.flag, c.value, code, c.phrase, stderr)
+		}
+		if _, err := os.Stat(out); err == nil {
+			t.Errorf("%s %s: %s was written", c.flag, c.value, c.out)
+		}
+	}
+}
+
 // --points sets the rows per element of the table and --units its unit
 // system, which the preamble states; the file is written whole or not at
 // all.
