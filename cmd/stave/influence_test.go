@@ -209,6 +209,10 @@ func TestInfluenceCommandMisuse(t *testing.T) {
 		{[]string{"../../testdata/demo.json", "--quantity", "V", "--at", "1", "--side", "up"}, 2, "use left or right"},
 		{[]string{"../../testdata/demo.json", "--quantity", "reaction"}, 2, "needs --support"},
 		{[]string{"../../testdata/demo.json", "--quantity", "M", "--at", "9"}, 1, "not on the member"},
+		// Just past the end, every digit: it said "x = 5.5 m is not on the member (0 to 5.5 m)".
+		{[]string{"../../testdata/demo.json", "--quantity", "M", "--at", "5.5000000001"}, 1, "x = 5.5000000001 m is not on the member (0 to 5.5 m)"},
+		// Trains count from 1: --train 0 was "there is no train 0: the file has 2", exit 1.
+		{[]string{"../../testdata/moving/runway.json", "--quantity", "M", "--at", "1", "--train", "0", "--out", "x.png"}, 2, "--train 0: count the trains from 1"},
 		{[]string{"../../testdata/demo.json", "--quantity", "sigma_combined", "--at", "1"}, 1, "not linear"},
 		{[]string{"../../testdata/demo.json", "--quantity", "reaction", "--support", "2", "--motion", "rotation"}, 1, "does not hold the rotation"},
 	} {
