@@ -342,6 +342,17 @@ func TestExportCSVPointsAndUnits(t *testing.T) {
 	}
 }
 
+// A --target that is not a relative error to reach is misuse: NaN, a
+// negative or an infinite one left the adaptive study out without a word.
+func TestConvergeTargetMisuse(t *testing.T) {
+	for _, target := range []string{"NaN", "-1", "+Inf", "0", "1"} {
+		code, out, stderr := runStave(t, "converge", "--target", target, "../../testdata/demo.json")
+		if code != 2 || out != "" || !strings.Contains(stderr, "--target "+target+": give the relative energy error to reach") {
+			t.Errorf("--target %s: exit %d, stdout %d bytes, stderr %q", target, code, len(out), stderr)
+		}
+	}
+}
+
 func TestConvergeJSON(t *testing.T) {
 	code, out, stderr := runStave(t, "converge", "--json", "--max", "8", "../../testdata/simply_supported_uniform.json")
 	// The model's 20.8 mm deflection is beyond span/360 = 11.1 mm (common
