@@ -97,9 +97,7 @@ func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
 	if !target.Bending() {
 		target = nil // a train loads across: nothing to say of an axial target
 	}
-	if out.Trains, err = trainResults(p, in, out.Mesh, target, r.Envelope); err != nil {
-		return nil, err
-	}
+	out.Trains = trainResults(p, in, out.Mesh, target, r.Envelope)
 	return out, nil
 }
 
