@@ -738,8 +738,14 @@ func (v *validator) memory(m *Model) {
 	}
 	limit := fmtGigabytes(memoryLimit)
 	if least := sets * keys * (bytesPerKeyPoint + bytesPerElement); least > memoryLimit { // too much even with one element per stretch
-		v.add(Place{Item: modelItem}, fmt.Sprintf("the model would need at least %s of memory for its %.3g key points (ends and breaks of segments, supports, point loads and load points), more than the %s allowed: use fewer supports, point loads and load points, or split the member into several models (up to about %.3g key points fit)",
-			fmtGigabytes(least), keys, limit, math.Floor(memoryLimit/(bytesPerKeyPoint+bytesPerElement))))
+		// With cases, what fits is shared among them: 500 cases of 507
+		// key points were told 138,000 key points fit.
+		cases, fewer := "", ""
+		if sets > 1 {
+			cases, fewer = fmt.Sprintf(", each solved for %.3g load cases", sets), " or fewer load cases"
+		}
+		v.add(Place{Item: modelItem}, fmt.Sprintf("the model would need at least %s of memory for its %.3g key points (ends and breaks of segments, supports, point loads and load points)%s, more than the %s allowed: use fewer supports, point loads and load points%s, or split the member into several models (up to about %.3g key points fit%s)",
+			fmtGigabytes(least), keys, cases, limit, fewer, math.Floor(memoryLimit/(sets*(bytesPerKeyPoint+bytesPerElement))), strings.TrimPrefix(cases, ", each solved")))
 		return
 	}
 	fit := math.Floor((memoryLimit - keyBytes) / (sets * bytesPerElement))
