@@ -165,8 +165,7 @@ func dispatch(args []string, stdout io.Writer) error {
 	case "bench":
 		return benchCommand(args[1:], stdout)
 	case "version", "--version":
-		fmt.Fprintln(stdout, "stave", version)
-		return nil
+		return versionCommand(args[1:], stdout)
 	case "help", "-h", "--help":
 		fmt.Fprint(stdout, usage)
 		return nil
@@ -175,4 +174,18 @@ func dispatch(args []string, stdout io.Writer) error {
 		return openWindow(args[0])
 	}
 	return usageError{fmt.Sprintf("unknown command %q", args[0])}
+}
+
+// versionCommand prints the release; it takes no file (a stray argument
+// was ignored).
+func versionCommand(args []string, stdout io.Writer) error {
+	fs := newFlagSet("version")
+	if err := parseFlags(fs, args, stdout, ""); err != nil {
+		return err
+	}
+	if fs.NArg() > 0 {
+		return usageError{fmt.Sprintf("version takes no argument, got %q", fs.Arg(0))}
+	}
+	fmt.Fprintln(stdout, "stave", version)
+	return nil
 }
