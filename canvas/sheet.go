@@ -253,6 +253,9 @@ func (sh *sheet) modelTable(m *fem.Model) {
 			d += fmt.Sprintf("; k %s, %s, %s", f(units.TranslationalStiffness, s.Stiffness[0]),
 				f(units.TranslationalStiffness, s.Stiffness[1]), f(units.RotationalStiffness, s.Stiffness[2]))
 		}
+		if st := s.Settlement; st != [3]float64{} {
+			d += fmt.Sprintf("; settles %s, %s, %s", f(units.Deflection, st[0]), f(units.Deflection, st[1]), f(units.Rotation, st[2]))
+		}
 		rows = append(rows, [2]string{fmt.Sprintf("support %d", i+1), d})
 	}
 	for i, h := range m.Hinges {
