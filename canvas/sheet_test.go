@@ -97,3 +97,56 @@ func TestSheetShowsGroundAndHinges(t *testing.T) {
 		t.Errorf("the sheet has %d pages, want 1", n)
 	}
 }
+
+// The model table gives the values the loads and the checks use: the
+// density under self-weight, the thermal expansion under a change of
+// temperature, the allowable stress, the supports' settlements, in the
+// sheet's units. A rod under
+// its own weight gave g but not ρ, so the sheet did not say what weight
+// was carried. US values from NIST SP 811, Appendix B: 1 lb/ft³ =
+// 16.01846 kg/m³, 1 ksi = 6.894757 MPa, 1/°F = (5/9)/K.
+func TestSheetGivesTheMaterialValuesTheLoadsUse(t *testing.T) {
+	steel := fem.Material{Name: "steel", Elastic: 200e9, Density: 7850, ThermalExpansion: 12e-6, Allowable: 250e6}
+	sec := fem.Section{Area: 1e-3, SecondMoment: 8e-6, FibreDistance: 0.1}
+	rod := fem.Model{Segments: []fem.Segment{{Start: 0, End: 4, Section: sec, Material: steel}},
+		Supports: []fem.Support{{X: 0, Kind: fem.Fixed}}, Gravity: [2]float64{fem.StandardGravity, 0}}
+	heated := fem.Model{Segments: rod.Segments, Supports: []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 4, Kind: fem.Pinned}}, TemperatureChange: 30}
+	settled := fem.Model{Segments: rod.Segments, Supports: []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 4, Kind: fem.Roller, Settlement: [3]float64{0, -0.0254, 0}}}}
+	for _, c := range []struct {
+		name   string
+		model  fem.Model
+		system units.System
+		want   []string
+		absent []string
+	}{
+		{"rod under its own weight, SI", rod, units.SI, []string{"density 7850 kg/m³; allowable stress 250.0 MPa"}, []string{"thermal expansion"}},
+		// 7850 / 16.01846 = 490.06 lb/ft³; 250 / 6.894757 = 36.26 ksi.
+		{"rod under its own weight, US", rod, units.USCustomary, []string{"density 490.1 lb/ft³; allowable stress 36.26 ksi"}, []string{"thermal expansion"}},
+		// 12e-6 /K × 5/9 = 6.667e-6 /°F.
+		{"heated bar, US", heated, units.USCustomary, []string{"thermal expansion 6.667e-06 1/°F; allowable stress 36.26 ksi"}, []string{"density"}},
+		// A settlement is a load too: 25.4 mm is 1 in exactly.
+		{"settled support, US", settled, units.USCustomary, []string{"roller at 13.12 ft; settles 0 in, -1.000 in, 0 rad"}, []string{"density", "thermal expansion"}},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			in := solved(t, &c.model)
+			in.Units = c.system
+			page := buildSheet(SheetInput{Input: in, Notes: SheetNotes{Version: "test"}})
+			var text strings.Builder
+			for _, it := range page.Items {
+				if it.Kind == Text {
+					text.WriteString(it.Text + "\n")
+				}
+			}
+			for _, w := range c.want {
+				if !strings.Contains(text.String(), w) {
+					t.Errorf("the sheet does not say %q:\n%s", w, text.String())
+				}
+			}
+			for _, a := range c.absent {
+				if strings.Contains(text.String(), a) {
+					t.Errorf("the sheet gives the %s, which no load uses", a)
+				}
+			}
+		})
+	}
+}

@@ -85,8 +85,18 @@ func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
 		}
 		return v
 	}
+	// Where the line jumps, at the reading point, the load read there
+	// stands on the side of the section away from the one read, as the
+	// finite element load on that node does: just left of it for the
+	// value just right. The shear force just right of a load on the point
+	// read the load as if past it (13/32 instead of 13/32 − 1 for a load
+	// at midspan of two equal spans), beside the finite element −19/32.
+	side := fem.Right
+	if !r.Target.Reaction && r.Target.Side == fem.Right {
+		side = fem.Left
+	}
 	for i, s := range positions {
-		sample := InfluenceSample{S: s, Exact: clean(line.At(s, fem.Right))}
+		sample := InfluenceSample{S: s, Exact: clean(line.At(s, side))}
 		if fe != nil {
 			fe[i] = clean(fe[i])
 			sample.FE, sample.FEAt = &fe[i], &at[i]
@@ -97,9 +107,7 @@ func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
 	if !target.Bending() {
 		target = nil // a train loads across: nothing to say of an axial target
 	}
-	if out.Trains, err = trainResults(p, in, out.Mesh, target, r.Envelope); err != nil {
-		return nil, err
-	}
+	out.Trains = trainResults(p, in, out.Mesh, target, r.Envelope)
 	return out, nil
 }
 

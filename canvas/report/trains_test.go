@@ -220,10 +220,13 @@ func TestTrainLeftOutIsWarned(t *testing.T) {
 	}
 	fits := moving.Train{Name: "trolley", Axles: []moving.Axle{{Load: 12e3}, {Load: 12e3, Spacing: 1.2}}, Step: 0.05}
 	long := moving.Train{Name: "long", Axles: []moving.Axle{{Load: 12e3}, {Load: 12e3, Spacing: 50}}, Step: 0.05}
+	// Its finite element check at the governing position overflows: it
+	// alone is left out (every train of the file was).
+	huge := moving.Train{Name: "huge", Axles: []moving.Axle{{Load: 1e300}}, Step: 0.05}
 	for _, tc := range []struct {
 		trains []moving.Train
 		warned int
-	}{{[]moving.Train{fits}, 0}, {[]moving.Train{fits, long}, 1}} {
+	}{{[]moving.Train{fits}, 0}, {[]moving.Train{fits, long}, 1}, {[]moving.Train{huge, fits}, 1}} {
 		p.Trains = tc.trains
 		src, err := Analyse(context.Background(), p)
 		if err != nil {
@@ -241,6 +244,11 @@ func TestTrainLeftOutIsWarned(t *testing.T) {
 		}
 		if warned != tc.warned || len(src.Trains) != len(tc.trains) {
 			t.Errorf("%d trains: %d warnings of a train left out, %d results; want %d and %d", len(tc.trains), warned, len(src.Trains), tc.warned, len(tc.trains))
+		}
+		for i, r := range src.Trains {
+			if r.Train.Name == "trolley" && r.Err != nil {
+				t.Errorf("train %d, the trolley that fits, left out: %v", i+1, r.Err)
+			}
 		}
 	}
 }
