@@ -85,8 +85,16 @@ func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
 		}
 		return v
 	}
+	// A load on the point itself stands on the other side of the cut from
+	// the side the quantity is read on (the shear force just right of x
+	// has a load at x on its left), as the finite element load on the
+	// node there does.
+	loadSide := fem.Right
+	if !r.Target.Reaction && r.Target.Side == fem.Right {
+		loadSide = fem.Left
+	}
 	for i, s := range positions {
-		sample := InfluenceSample{S: s, Exact: clean(line.At(s, fem.Right))}
+		sample := InfluenceSample{S: s, Exact: clean(line.At(s, loadSide))}
 		if fe != nil {
 			fe[i] = clean(fe[i])
 			sample.FE, sample.FEAt = &fe[i], &at[i]

@@ -244,3 +244,37 @@ func TestInfluenceCommandPictureAndSheet(t *testing.T) {
 		t.Errorf("a third train of two: exit %d, stderr %q", code, stderr)
 	}
 }
+
+// The shear force at x = 1 m of the simply supported beam of span L = 4 m,
+// read on either side of x, per newton of a load acting down at s: −s/L
+// while the load stands left of the cut, 1 − s/L while it stands right of
+// it (statics; e.g. Hibbeler, Structural Analysis, ch. 6, from memory).
+// With the load at x itself the cut just right of x has it on its left and
+// the cut just left of x on its right: the exact sample there is the same
+// load as the finite element one, on the node at x.
+func TestInfluenceCommandShearAtItsOwnPoint(t *testing.T) {
+	const L, x = 4.0, 1.0
+	for _, c := range []struct {
+		side      string
+		loadsLeft func(s float64) bool // whether a load at s stands left of the cut
+	}{
+		{"right", func(s float64) bool { return s <= x }},
+		{"left", func(s float64) bool { return s < x }},
+	} {
+		t.Run(c.side, func(t *testing.T) {
+			got := influenceRun(t, "../../testdata/simply_supported_uniform.json", "--quantity", "V", "--at", "1", "--side", c.side, "--points", "8")
+			for _, s := range got.Line.Samples {
+				want := 1 - s.S/L
+				if c.loadsLeft(s.S) {
+					want = -s.S / L
+				}
+				if math.Abs(s.Exact-want) > 1e-12 {
+					t.Errorf("exact line at s = %g: %.15g, want %g", s.S, s.Exact, want)
+				}
+				if s.FE == nil || *s.FEAt != s.S || math.Abs(*s.FE-want) > 1e-12 {
+					t.Errorf("finite element line at s = %g: %v with the load at %v, want %g at %g", s.S, s.FE, s.FEAt, want, s.S)
+				}
+			}
+		})
+	}
+}
