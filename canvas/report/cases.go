@@ -215,12 +215,13 @@ func governingJSON(m *fem.Model, c *analysis.Cases, g fem.Governing) GoverningJS
 	return out
 }
 
-// Arrangement is g's loaded spans in words: "imposed on spans 1, 3"; ""
-// when its combination places nothing by span.
-func (g GoverningJSON) Arrangement() string {
+// Arrangement is g's loaded spans in words, and its train's position in
+// units u: "imposed on spans 1, 3"; "" when its combination places nothing
+// by span and takes no train.
+func (g GoverningJSON) Arrangement(u units.System) string {
 	var parts []string
 	if t := g.Train; t != nil {
-		parts = append(parts, fmt.Sprintf("train %q, front at %s m %s", t.Name, units.FormatNumber(t.Front), t.Direction))
+		parts = append(parts, fmt.Sprintf("train %q, front at %s %s", t.Name, u.Format(units.Position, t.Front), t.Direction))
 	}
 	for _, l := range g.LoadedSpans {
 		if len(l.Spans) == 0 {
@@ -409,8 +410,8 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 	fmt.Fprintln(tw, "  quantity\tlargest\tat x\tgoverning\tsmallest\tat x\tgoverning")
 	for _, q := range r.Envelope.Quantities {
 		k := q.Quantity.Info().Unit
-		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\t%s\n", q.Quantity.Info().Name, u.Format(k, q.Max.Value), pos(q.Max.X), governingWords(q.Max),
-			u.Format(k, q.Min.Value), pos(q.Min.X), governingWords(q.Min))
+		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\t%s\n", q.Quantity.Info().Name, u.Format(k, q.Max.Value), pos(q.Max.X), governingWords(q.Max, u),
+			u.Format(k, q.Min.Value), pos(q.Min.X), governingWords(q.Min, u))
 	}
 	tw.Flush()
 	fmt.Fprintln(tw, "\nReaction envelope (forces of the supports on the member)")
@@ -425,7 +426,7 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 			if hi.Value == 0 && lo.Value == 0 {
 				continue
 			}
-			fmt.Fprintf(tw, "  %d %s\t%s\t%s\t%s\t%s\t%s\t%s\n", re.Support, re.Kind, pos(re.X), name, u.Format(k, hi.Value), governingWords(hi), u.Format(k, lo.Value), governingWords(lo))
+			fmt.Fprintf(tw, "  %d %s\t%s\t%s\t%s\t%s\t%s\t%s\n", re.Support, re.Kind, pos(re.X), name, u.Format(k, hi.Value), governingWords(hi, u), u.Format(k, lo.Value), governingWords(lo, u))
 		}
 	}
 	tw.Flush()
@@ -439,7 +440,7 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 					continue
 				}
 				fmt.Fprintf(tw, "  %d\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", f.Foundation, pos(f.Start), pos(f.End), name,
-					u.Format(units.Force, hi.Value), governingWords(hi), u.Format(units.Force, lo.Value), governingWords(lo))
+					u.Format(units.Force, hi.Value), governingWords(hi, u), u.Format(units.Force, lo.Value), governingWords(lo, u))
 			}
 		}
 		tw.Flush()
@@ -461,9 +462,10 @@ func spanWords(spans [][2]float64) string {
 	return fmt.Sprintf(" and every arrangement of the %d spans for the cases placed by span", len(spans))
 }
 
-// governingWords names what gives an extreme: "ULS 1 (imposed on spans 1, 3)".
-func governingWords(g GoverningJSON) string {
-	if a := g.Arrangement(); a != "" {
+// governingWords names what gives an extreme, positions in units u:
+// "ULS 1 (imposed on spans 1, 3)".
+func governingWords(g GoverningJSON, u units.System) string {
+	if a := g.Arrangement(u); a != "" {
 		return g.Combination + " (" + a + ")"
 	}
 	return g.Combination
@@ -522,8 +524,8 @@ func sheetCaseLines(src Source) []string {
 		case fem.QBendingMoment:
 			k := q.Quantity.Info().Unit
 			lines = append(lines, fmt.Sprintf("Envelope of %s: largest %s at %s, %s; smallest %s at %s, %s.", q.Quantity.Info().Name,
-				u.Format(k, q.Max.Value), u.Format(units.Position, q.Max.X), governingWords(q.Max),
-				u.Format(k, q.Min.Value), u.Format(units.Position, q.Min.X), governingWords(q.Min)))
+				u.Format(k, q.Max.Value), u.Format(units.Position, q.Max.X), governingWords(q.Max, u),
+				u.Format(k, q.Min.Value), u.Format(units.Position, q.Min.X), governingWords(q.Min, u)))
 		}
 	}
 	// transverse is the range of one transverse envelope, numbered n;
@@ -533,7 +535,7 @@ func sheetCaseLines(src Source) []string {
 		if hi.Value == 0 && lo.Value == 0 {
 			return ""
 		}
-		return fmt.Sprintf("%d: %s (%s) to %s (%s)", n, u.Format(units.Force, lo.Value), governingWords(lo), u.Format(units.Force, hi.Value), governingWords(hi))
+		return fmt.Sprintf("%d: %s (%s) to %s (%s)", n, u.Format(units.Force, lo.Value), governingWords(lo, u), u.Format(units.Force, hi.Value), governingWords(hi, u))
 	}
 	var reactions, ground []string
 	for _, re := range r.Envelope.Reactions {

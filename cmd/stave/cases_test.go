@@ -144,3 +144,53 @@ func TestSolveShow(t *testing.T) {
 		t.Errorf("exit %d, stderr %s", code, stderr)
 	}
 }
+
+// A combination that takes a moving load train: the simply supported beam
+// of span L = 4 m under its case (q = 10 kN/m down) plus 1.5 times two
+// axles of 10 kN, 1 m apart. With one axle at x ≤ 3 m and the other 1 m
+// beyond, statics gives M = q·x·(L − x)/2 + 1.5·P·x·(2L − 2x − 1)/L =
+// 46.25·x − 12.5·x² kN·m, largest at x = 1.85 m: 42.78125 kN·m (or at its
+// mirror image, 2.15 m), a position of the 0.01 m step. The governing
+// words name the train's position in the units the text is in.
+func TestSolveCombinationWithTrain(t *testing.T) {
+	path := variant(t, t.TempDir(), "with_train", func(m map[string]any) {
+		stiff(m)
+		m["cases"] = []any{map[string]any{"name": "dead", "loads": m["loads"]}}
+		delete(m, "loads")
+		m["combinations"] = []any{map[string]any{"name": "C", "kind": "strength",
+			"factors": []any{map[string]any{"case": "dead", "factor": 1}, map[string]any{"train": "two axles", "factor": 1.5}}}}
+		m["trains"] = []any{map[string]any{"name": "two axles", "step": 0.01,
+			"axles": []any{map[string]any{"load": 10e3}, map[string]any{"load": 10e3, "spacing": 1}}}}
+	})
+	code, out, stderr := runStave(t, "solve", "--json", path)
+	var got casesResult
+	if err := json.Unmarshal([]byte(out), &got); code != 0 || err != nil {
+		t.Fatalf("exit %d, %v, stderr %s", code, err, stderr)
+	}
+	for _, q := range got.Envelope.Quantities {
+		if q.Quantity != "bending_moment" {
+			continue
+		}
+		if math.Abs(q.Max.Value-42781.25) > 1e-9*42781.25 || (math.Abs(q.Max.X-1.85) > 1e-9 && math.Abs(q.Max.X-2.15) > 1e-9) || q.Max.Combination != "C" {
+			t.Errorf("largest moment %.12g N·m at %g from %s, want 42781.25 at 1.85 or 2.15 from C", q.Max.Value, q.Max.X, q.Max.Combination)
+		}
+	}
+	for _, c := range []struct{ units, unit string }{{"SI", "m"}, {"US", "ft"}} {
+		code, out, stderr = runStave(t, "solve", "--units", c.units, path)
+		if code != 0 {
+			t.Fatalf("%s: exit %d, stderr %s", c.units, code, stderr)
+		}
+		for _, line := range strings.Split(out, "\n") {
+			if !strings.HasPrefix(line, "  bending moment ") {
+				continue
+			}
+			i := strings.Index(line, "front at ")
+			if i < 0 {
+				t.Fatalf("%s: the moment's governing words name no position of the train: %q", c.units, line)
+			}
+			if f := strings.Fields(line[i+len("front at "):]); len(f) < 2 || f[1] != c.unit {
+				t.Errorf("%s: the train's front is given as %q, want a position in %s", c.units, line[i:], c.unit)
+			}
+		}
+	}
+}
