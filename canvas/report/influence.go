@@ -5,6 +5,7 @@ import (
 	"io"
 	"math"
 	"slices"
+	"strings"
 	"text/tabwriter"
 
 	"stave/canvas"
@@ -243,18 +244,23 @@ func describeTarget(t moving.Target, u units.System) string {
 
 // describeTrain says what a train is, in one line.
 func describeTrain(t *moving.Train, label string, L float64, u units.System) string {
-	s := label + ":"
-	for i, a := range t.Axles {
-		if i > 0 {
-			s += fmt.Sprintf(" –%s–", u.Format(units.Position, a.Spacing))
+	var parts []string
+	if len(t.Axles) > 0 {
+		axles := ""
+		for i, a := range t.Axles {
+			if i > 0 {
+				axles += fmt.Sprintf(" –%s– ", u.Format(units.Position, a.Spacing))
+			}
+			axles += u.Format(units.Force, a.Load)
 		}
-		s += " " + u.Format(units.Force, a.Load)
+		parts = append(parts, axles)
 	}
 	if ul := t.Uniform; ul.Load > 0 {
-		s += fmt.Sprintf("; %s over %s from %s behind the front", u.Format(units.LineLoad, ul.Load), u.Format(units.Position, ul.Length), u.Format(units.Position, ul.Start))
+		parts = append(parts, fmt.Sprintf("%s over %s from %s behind the front", u.Format(units.LineLoad, ul.Load), u.Format(units.Position, ul.Length), u.Format(units.Position, ul.Start)))
 	}
 	from, to := t.Run(L)
-	return s + fmt.Sprintf("; runs %s between x = %s and %s", directionWords(t.Direction), u.Format(units.Position, from), u.Format(units.Position, to))
+	parts = append(parts, fmt.Sprintf("runs %s between x = %s and %s", directionWords(t.Direction), u.Format(units.Position, from), u.Format(units.Position, to)))
+	return label + ": " + strings.Join(parts, "; ")
 }
 
 func directionWords(d moving.Direction) string {

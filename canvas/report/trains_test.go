@@ -269,3 +269,24 @@ func TestTrainOnAxialTargetSaysNone(t *testing.T) {
 		}
 	}
 }
+
+// A train is described in one line: its axles, its uniform load and its
+// run, each part once, whatever parts it has.
+func TestDescribeTrain(t *testing.T) {
+	for _, c := range []struct {
+		name  string
+		train moving.Train
+		want  string
+	}{
+		{"axles", moving.Train{Axles: []moving.Axle{{Load: 10e3}, {Load: 20e3, Spacing: 1.5}}},
+			`t: 10.00 kN –1.500 m– 20.00 kN; runs both ways between x = 0 m and 8.000 m`},
+		{"a uniform load alone", moving.Train{Uniform: moving.UniformLoad{Load: 5e3, Length: 2}, Direction: moving.Forward},
+			`t: 5.000 kN/m over 2.000 m from 0 m behind the front; runs forward (towards +x) between x = 0 m and 8.000 m`},
+		{"both", moving.Train{Axles: []moving.Axle{{Load: 10e3}}, Uniform: moving.UniformLoad{Load: 5e3, Start: 1, Length: 2}, From: 1, To: 7},
+			`t: 10.00 kN; 5.000 kN/m over 2.000 m from 1.000 m behind the front; runs both ways between x = 1.000 m and 7.000 m`},
+	} {
+		if got := describeTrain(&c.train, "t", 8, units.SI); got != c.want {
+			t.Errorf("%s: %q, want %q", c.name, got, c.want)
+		}
+	}
+}
