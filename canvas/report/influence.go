@@ -86,16 +86,8 @@ func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
 		}
 		return v
 	}
-	// A load on the point itself stands on the other side of the cut from
-	// the side the quantity is read on (the shear force just right of x
-	// has a load at x on its left), as the finite element load on the
-	// node there does.
-	loadSide := fem.Right
-	if !r.Target.Reaction && r.Target.Side == fem.Right {
-		loadSide = fem.Left
-	}
 	for i, s := range positions {
-		sample := InfluenceSample{S: s, Exact: clean(line.At(s, loadSide))}
+		sample := InfluenceSample{S: s, Exact: clean(sampleAt(line, r.Target, s, L))}
 		if fe != nil {
 			fe[i] = clean(fe[i])
 			sample.FE, sample.FEAt = &fe[i], &at[i]
@@ -110,6 +102,26 @@ func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
 		return nil, err
 	}
 	return out, nil
+}
+
+// sampleAt is line l of target t at load position s on a member of length
+// L. A load on t's own point stands on the far side of the cut from the
+// side t is read on (the shear force just right of x has a load at x on
+// its left), as the finite element load on the node there does. The line
+// that jumps there, the shear force's, is then the limit on the side read
+// less the unit load crossing the cut, which holds at an end of the member
+// too, where the line has no piece beyond.
+func sampleAt(l *moving.Line, t moving.Target, s, L float64) float64 {
+	if t.Reaction || t.Quantity != fem.QShearForce || math.Abs(s-t.X) > 1e-12*L {
+		return l.At(s, fem.Right)
+	}
+	switch {
+	case t.Side == fem.Right && t.X < L:
+		return l.At(s, fem.Right) - 1
+	case t.Side == fem.Left && t.X > 0:
+		return l.At(s, fem.Left) + 1
+	}
+	return l.At(s, fem.Right)
 }
 
 // influenceUnit is the unit of the line's ordinates in u: the target's

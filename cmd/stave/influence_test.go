@@ -245,27 +245,28 @@ func TestInfluenceCommandPictureAndSheet(t *testing.T) {
 	}
 }
 
-// The shear force at x = 1 m of the simply supported beam of span L = 4 m,
-// read on either side of x, per newton of a load acting down at s: −s/L
-// while the load stands left of the cut, 1 − s/L while it stands right of
-// it (statics; e.g. Hibbeler, Structural Analysis, ch. 6, from memory).
-// With the load at x itself the cut just right of x has it on its left and
-// the cut just left of x on its right: the exact sample there is the same
-// load as the finite element one, on the node at x.
+// The shear force of the simply supported beam of span L = 4 m at x = 0,
+// 1 m and L, read on either side of x, per newton of a load acting down at
+// s: −s/L while the load stands left of the cut, 1 − s/L while it stands
+// right of it (statics; e.g. Hibbeler, Structural Analysis, ch. 6, from
+// memory). With the load at x itself the cut just right of x has it on its
+// left and the cut just left of x on its right: the exact sample there is
+// the same load as the finite element one, on the node at x (at a support
+// the load goes straight into it: 0).
 func TestInfluenceCommandShearAtItsOwnPoint(t *testing.T) {
-	const L, x = 4.0, 1.0
+	const L = 4.0
 	for _, c := range []struct {
-		side      string
-		loadsLeft func(s float64) bool // whether a load at s stands left of the cut
+		at, side string
+		x        float64
 	}{
-		{"right", func(s float64) bool { return s <= x }},
-		{"left", func(s float64) bool { return s < x }},
+		{"1", "right", 1}, {"1", "left", 1}, {"0", "right", 0}, {"4", "left", L},
 	} {
-		t.Run(c.side, func(t *testing.T) {
-			got := influenceRun(t, "../../testdata/simply_supported_uniform.json", "--quantity", "V", "--at", "1", "--side", c.side, "--points", "8")
+		t.Run(c.at+" "+c.side, func(t *testing.T) {
+			got := influenceRun(t, "../../testdata/simply_supported_uniform.json", "--quantity", "V", "--at", c.at, "--side", c.side, "--points", "8")
 			for _, s := range got.Line.Samples {
+				loadsLeft := s.S < c.x || (s.S == c.x && c.side == "right")
 				want := 1 - s.S/L
-				if c.loadsLeft(s.S) {
+				if loadsLeft {
 					want = -s.S / L
 				}
 				if math.Abs(s.Exact-want) > 1e-12 {
