@@ -659,13 +659,31 @@ func (w *envelopeWalk) governing(p *envelopePoint, i int, upper bool) Governing 
 	return g
 }
 
-// reactionEnvelope is the envelope of every support's reaction.
+// reactionEnvelope is the envelope of every support's reaction. A
+// reaction negligible against the size of the forces of every load set
+// (forceFloor: their loads, reactions and imposed deformations fully
+// restrained) is round-off, such as the axial reaction of a member free to
+// expand, and reads as zero.
 func (cs *CombinationSolutions) reactionEnvelope() []ReactionEnvelope {
+	force := 0.0
+	for _, s := range slices.Concat(cs.Fixed, cs.Shares) {
+		force = max(force, forceFloor(s)[0])
+	}
+	L := cs.Fixed[0].Model.Length()
 	out := make([]ReactionEnvelope, len(cs.Fixed[0].Reactions))
 	for i, r := range cs.Fixed[0].Reactions {
 		re := ReactionEnvelope{Support: r.Support, X: r.X}
 		for d := range 3 {
 			re.Min[d], re.Max[d] = cs.linearEnvelope(r.X, func(s *Solution) float64 { return s.Reactions[i].Force[d] })
+			size := force
+			if Dof(d) == Rotation {
+				size *= L
+			}
+			for _, g := range []*Governing{&re.Min[d], &re.Max[d]} {
+				if math.Abs(g.Value) <= negligible*size {
+					g.Value = 0
+				}
+			}
 		}
 		out[i] = re
 	}

@@ -367,3 +367,34 @@ func TestEnvelopeWithoutCases(t *testing.T) {
 		}
 	}
 }
+
+// A member that is free to expand takes no axial reaction whatever the
+// temperature (statics: a pinned and a roller support, nothing else holds
+// it along its axis), so the envelope's axial reactions are 0, not the
+// round-off of the thermal force α·ΔT·EA the exact solution cancels, which
+// the reports printed ("-5.821e-14 kN") and named a combination for.
+func TestReactionEnvelopeWithoutRoundOff(t *testing.T) {
+	m := &Model{
+		Segments: []Segment{{Start: 0, End: 10, Section: Section{Area: 0.004, SecondMoment: 1.6e-5, FibreDistance: 0.1},
+			Material: Material{Elastic: 2e11, ThermalExpansion: 1.2e-5}}},
+		Supports: []Support{{X: 0, Kind: Pinned}, {X: 4, Kind: Roller}, {X: 10, Kind: Roller}},
+		Cases: []LoadCase{
+			{Name: "dead", DistributedLoad: []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -5e3}, {10, -5e3}}}}},
+			{Name: "warm", TemperatureChange: 30},
+		},
+		Combinations: []Combination{
+			{Name: "A", Kind: Strength, Factors: []CaseFactor{{Case: 0, Factor: 1.35}}},
+			{Name: "B", Kind: Serviceability, Factors: []CaseFactor{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}},
+			{Name: "C", Kind: OtherCombination, Factors: []CaseFactor{{Case: 1, Factor: 1}}},
+		},
+	}
+	_, cs := solveCombinations(t, m)
+	for _, r := range cs.Envelope().Reactions {
+		if hi, lo := r.Max[Axial].Value, r.Min[Axial].Value; hi != 0 || lo != 0 {
+			t.Errorf("support %d: axial reaction from %g to %g N, want 0", r.Support+1, lo, hi)
+		}
+		if r.Max[Transverse].Value <= 0 {
+			t.Errorf("support %d: largest transverse reaction %g N, want the loads' share", r.Support+1, r.Max[Transverse].Value)
+		}
+	}
+}
