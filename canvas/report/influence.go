@@ -192,7 +192,7 @@ func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *mo
 		case tr.Target && target != nil:
 			kind := targetKind(*target)
 			fmt.Fprintf(w, "  %s: largest %s, smallest %s\n", describeTarget(*target, u),
-				trainExtremeText(tr.Largest, kind, u, false), trainExtremeText(tr.Smallest, kind, u, false))
+				trainExtremeText(tr.Largest, kind, u, false, 0), trainExtremeText(tr.Smallest, kind, u, false, 0))
 		case target != nil:
 			fmt.Fprintf(w, "  %s: 0 wherever the train stands; a train's loads act across the member and move no axial force or axial displacement\n", describeTarget(*target, u))
 		}
@@ -200,11 +200,7 @@ func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *mo
 			continue
 		}
 		fmt.Fprintln(w, "  over all positions (front: the x of the first axle; finite elements: the train solved there)")
-		for _, q := range tr.Worst {
-			k := q.Quantity.Info().Unit
-			fmt.Fprintf(tw, "    %s\tlargest\t%s\n", q.Quantity, trainExtremeText(q.Largest, k, u, true))
-			fmt.Fprintf(tw, "    \tsmallest\t%s\n", trainExtremeText(q.Smallest, k, u, true))
-		}
+		writeWorst(tw, tr.Worst, m.Length(), u)
 		for _, re := range tr.Envelope.Reactions {
 			k := units.Force
 			if re.Motion == fem.Rotation {
@@ -212,32 +208,70 @@ func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *mo
 			}
 			hi := TrainExtreme{Value: re.Max, X: m.Supports[re.Support].X, Direction: re.MaxAt.Direction.String(), Front: re.MaxAt.Front}
 			lo := TrainExtreme{Value: re.Min, X: hi.X, Direction: re.MinAt.Direction.String(), Front: re.MinAt.Front}
-			fmt.Fprintf(tw, "    %s reaction of support %d\tlargest\t%s\n", re.Motion, re.Support+1, trainExtremeText(hi, k, u, false))
-			fmt.Fprintf(tw, "    \tsmallest\t%s\n", trainExtremeText(lo, k, u, false))
+			size := max(math.Abs(re.Max), math.Abs(re.Min))
+			fmt.Fprintf(tw, "    %s reaction of support %d\tlargest\t%s\n", re.Motion, re.Support+1, trainExtremeText(hi, k, u, false, size))
+			fmt.Fprintf(tw, "    \tsmallest\t%s\n", trainExtremeText(lo, k, u, false, size))
 		}
 		tw.Flush()
 		for _, c := range tr.Combinations {
 			fmt.Fprintf(w, "  in combination %q, factor %s on top of its cases (exact solution, every span loaded)\n", c.Combination, units.FormatNumber(c.Factor))
-			for _, q := range c.Worst {
-				k := q.Quantity.Info().Unit
-				fmt.Fprintf(tw, "    %s\tlargest\t%s\n", q.Quantity, trainExtremeText(q.Largest, k, u, true))
-				fmt.Fprintf(tw, "    \tsmallest\t%s\n", trainExtremeText(q.Smallest, k, u, true))
-			}
+			writeWorst(tw, c.Worst, m.Length(), u)
 			tw.Flush()
 		}
 	}
 }
 
+// writeWorst writes the rows of the extremes ws on a member of length L,
+// m, each measured against the size of its kind over ws (the deflection
+// and the rotation times L, the shear force and the moment over L, the
+// stress), so that the round-off of a value that vanishes (the largest
+// moment of a cantilever under loads acting down) reads as zero.
+func writeWorst(tw io.Writer, ws []QuantityWorst, L float64, u units.System) {
+	var kinds [3]float64
+	kind := func(q fem.Quantity) (int, float64) {
+		switch q {
+		case fem.QDeflection:
+			return 0, 1
+		case fem.QRotation:
+			return 0, L
+		case fem.QShearForce:
+			return 1, 1
+		case fem.QBendingMoment:
+			return 1, 1 / L
+		}
+		return 2, 1
+	}
+	for _, q := range ws {
+		i, scale := kind(q.Quantity)
+		for _, e := range []TrainExtreme{q.Largest, q.Smallest} {
+			kinds[i] = max(kinds[i], math.Abs(e.Value)*scale)
+		}
+	}
+	for _, q := range ws {
+		k := q.Quantity.Info().Unit
+		i, scale := kind(q.Quantity)
+		size := kinds[i] / scale
+		fmt.Fprintf(tw, "    %s\tlargest\t%s\n", q.Quantity, trainExtremeText(q.Largest, k, u, true, size))
+		fmt.Fprintf(tw, "    \tsmallest\t%s\n", trainExtremeText(q.Smallest, k, u, true, size))
+	}
+}
+
 // trainExtremeText writes an extreme with the train's position, and where
-// it is when at says so.
-func trainExtremeText(e TrainExtreme, k units.Kind, u units.System, at bool) string {
-	s := u.Format(k, e.Value)
+// it is when at says so; values within round-off of size read as zero.
+func trainExtremeText(e TrainExtreme, k units.Kind, u units.System, at bool, size float64) string {
+	value := func(v float64) string {
+		if math.Abs(v) <= 1e-9*size {
+			v = 0
+		}
+		return u.Format(k, v)
+	}
+	s := value(e.Value)
 	if at {
 		s += " at x = " + u.Format(units.Position, e.X)
 	}
 	s += fmt.Sprintf(", front at %s %s", u.Format(units.Position, e.Front), e.Direction)
 	if e.FE != nil {
-		s += " (finite elements " + u.Format(k, *e.FE) + ")"
+		s += " (finite elements " + value(*e.FE) + ")"
 	}
 	return s
 }

@@ -290,3 +290,41 @@ func TestDescribeTrain(t *testing.T) {
 		}
 	}
 }
+
+// A cantilever (fixed at 0, 4 m) under two axles acting down: its moment is
+// nowhere above zero (statics), so the train's largest moment, and the
+// finite element reading beside it, read 0, not the round-off of the
+// closed form ("9.095e-15 kN·m"); the smallest is −(10 kN·2.5 m + 20 kN·4
+// m) = −105 kN·m with the heavier axle at the tip.
+func TestTrainTextLeavesRoundOffOut(t *testing.T) {
+	const model = `{"format": "stave-member", "version": 2,
+	"units": {"length": "m", "area": "m²", "second_moment": "m⁴", "force": "N", "moment": "N·m", "line_load": "N/m",
+		"stress": "Pa", "density": "kg/m³", "acceleration": "m/s²", "thermal_expansion": "1/K", "temperature_change": "K",
+		"rotation": "rad", "spring": "N/m", "rotational_spring": "N·m/rad"},
+	"member": {"segments": [{"start": 0, "end": 4, "section": {"area": 0.004, "second_moment": 1.6e-5, "fibre_distance": 0.1},
+		"material": {"elastic_modulus": 2e11}}]},
+	"supports": [{"x": 0, "kind": "fixed"}],
+	"trains": [{"name": "t", "axles": [{"load": 10000}, {"load": 20000, "spacing": 1.5}], "step": 0.01}]}`
+	p, err := storage.Unmarshal([]byte(model))
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := Influence(p, InfluenceRequest{Target: moving.Target{Quantity: fem.QBendingMoment, X: 1}, Envelope: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var b strings.Builder
+	WriteInfluenceText(&b, "cantilever", r, units.SI)
+	out := b.String()
+	if strings.Contains(out, "e-1") {
+		t.Errorf("round-off printed:\n%s", out)
+	}
+	i := strings.Index(out, "    bending moment ")
+	if i < 0 {
+		t.Fatalf("no bending moment row:\n%s", out)
+	}
+	rows := strings.SplitN(out[i:], "\n", 3)
+	if !strings.Contains(rows[0], "largest   0 kN·m at") || !strings.Contains(rows[0], "(finite elements 0 kN·m)") || !strings.Contains(rows[1], "smallest  -105.0 kN·m at x = 0 m") {
+		t.Errorf("bending moment rows:\n%s\n%s", rows[0], rows[1])
+	}
+}
