@@ -91,8 +91,9 @@ type GoverningJSON struct {
 	Combination string  `json:"combination"`
 	// LoadedSpans are, for each case of the combination placed by span,
 	// the spans loaded in the worst arrangement (counted from 1); the
-	// others are unloaded.
-	LoadedSpans []LoadedSpansJSON `json:"loaded_spans,omitempty"`
+	// others are unloaded. Empty when the combination places no case by
+	// span.
+	LoadedSpans []LoadedSpansJSON `json:"loaded_spans"`
 	// Train is where the combination's moving load train stands when
 	// the extreme comes from a combination that takes one.
 	Train *TrainPlacementJSON `json:"train,omitempty"`
@@ -193,7 +194,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 }
 
 func governingJSON(m *fem.Model, c *analysis.Cases, g fem.Governing) GoverningJSON {
-	out := GoverningJSON{Value: g.Value, X: g.X, Combination: c.Combinations[g.Combination].Name}
+	out := GoverningJSON{Value: g.Value, X: g.X, Combination: c.Combinations[g.Combination].Name, LoadedSpans: []LoadedSpansJSON{}}
 	for _, s := range g.Loaded {
 		name := m.LoadSetName(s.Case)
 		i := slices.IndexFunc(out.LoadedSpans, func(l LoadedSpansJSON) bool { return l.Case == name })
@@ -209,6 +210,28 @@ func governingJSON(m *fem.Model, c *analysis.Cases, g fem.Governing) GoverningJS
 			name := m.LoadSetName(cf.Case)
 			if !slices.ContainsFunc(out.LoadedSpans, func(l LoadedSpansJSON) bool { return l.Case == name }) {
 				out.LoadedSpans = append(out.LoadedSpans, LoadedSpansJSON{Case: name, Spans: []int{}})
+			}
+		}
+	}
+	return out
+}
+
+// everySpan are the loaded spans of combination name of m with a train:
+// every one of its n spans for each case it places by span (a combination
+// that takes a train is worked out with every span loaded).
+func everySpan(m *fem.Model, name string, n int) []LoadedSpansJSON {
+	out := []LoadedSpansJSON{}
+	for _, cb := range m.Combinations {
+		if cb.Name != name {
+			continue
+		}
+		for _, cf := range cb.Factors {
+			if cf.Case < len(m.Cases) && m.Cases[cf.Case].BySpan && cf.Factor != 0 {
+				spans := make([]int, n)
+				for i := range spans {
+					spans[i] = i + 1
+				}
+				out = append(out, LoadedSpansJSON{Case: m.LoadSetName(cf.Case), Spans: spans})
 			}
 		}
 	}
@@ -310,8 +333,9 @@ func (r *CasesJSON) addTrainExtremes(m *fem.Model, trains []TrainResult) {
 	unstressedAlong := axial != nil && axial.Max.Value == 0 && axial.Min.Value == 0
 	for _, tr := range trains {
 		for _, c := range tr.Combinations {
+			loaded := everySpan(m, c.Combination, len(r.Envelope.Spans))
 			governing := func(e TrainExtreme) GoverningJSON {
-				return GoverningJSON{Value: e.Value, X: e.X, Combination: c.Combination,
+				return GoverningJSON{Value: e.Value, X: e.X, Combination: c.Combination, LoadedSpans: loaded,
 					Train: &TrainPlacementJSON{Name: tr.Train.Name, Front: e.Front, Direction: e.Direction}}
 			}
 			for _, w := range c.Worst {

@@ -116,6 +116,35 @@ func TestSolveJSONTwoSpanCases(t *testing.T) {
 	if got.Shown != "envelope of 3 combinations" || got.SummaryOf != "combination both" {
 		t.Errorf("shown %q, summary of %q", got.Shown, got.SummaryOf)
 	}
+	// Every governing value lists its loaded spans, an empty list for a
+	// combination that places nothing by span (docs/json.md: lists are
+	// always lists).
+	var raw struct {
+		Envelope struct {
+			Quantities []struct{ Max, Min map[string]any }
+			Reactions  []struct{ Max, Min map[string]map[string]any }
+		}
+	}
+	if err := json.Unmarshal([]byte(out), &raw); err != nil {
+		t.Fatal(err)
+	}
+	var values []map[string]any
+	for _, q := range raw.Envelope.Quantities {
+		values = append(values, q.Max, q.Min)
+	}
+	for _, r := range raw.Envelope.Reactions {
+		for _, g := range r.Max {
+			values = append(values, g)
+		}
+		for _, g := range r.Min {
+			values = append(values, g)
+		}
+	}
+	for _, g := range values {
+		if l, ok := g["loaded_spans"].([]any); !ok || (g["combination"] != "pattern" && len(l) != 0) {
+			t.Errorf("governing value %v: loaded_spans %v, want a list (empty unless the combination places a case by span)", g, g["loaded_spans"])
+		}
+	}
 }
 
 // --show NAME prints one case or combination; an unknown name is misuse,
@@ -157,7 +186,7 @@ func TestSolveShow(t *testing.T) {
 func TestSolveCombinationWithTrain(t *testing.T) {
 	path := variant(t, t.TempDir(), "with_train", func(m map[string]any) {
 		stiff(m)
-		m["cases"] = []any{map[string]any{"name": "dead", "loads": m["loads"]}}
+		m["cases"] = []any{map[string]any{"name": "dead", "loads": m["loads"], "by_span": true}}
 		delete(m, "loads")
 		m["combinations"] = []any{map[string]any{"name": "C", "kind": "strength",
 			"factors": []any{map[string]any{"case": "dead", "factor": 1}, map[string]any{"train": "two axles", "factor": 1.5}}}}
@@ -175,6 +204,11 @@ func TestSolveCombinationWithTrain(t *testing.T) {
 		}
 		if math.Abs(q.Max.Value-42781.25) > 1e-9*42781.25 || (math.Abs(q.Max.X-1.85) > 1e-9 && math.Abs(q.Max.X-2.15) > 1e-9) || q.Max.Combination != "C" {
 			t.Errorf("largest moment %.12g N·m at %g from %s, want 42781.25 at 1.85 or 2.15 from C", q.Max.Value, q.Max.X, q.Max.Combination)
+		}
+		// A combination that takes a train is worked out with every span
+		// loaded, and says so.
+		if l := q.Max.LoadedSpans; len(l) != 1 || l[0].Case != "dead" || !slices.Equal(l[0].Spans, []int{1}) {
+			t.Errorf("largest moment's loaded spans %+v, want dead on span 1", l)
 		}
 	}
 	for _, c := range []struct{ units, unit string }{{"SI", "m"}, {"US", "ft"}} {
