@@ -3,11 +3,12 @@ package report
 import (
 	"fmt"
 	"io"
+	"math"
 	"slices"
-	"stave/canvas"
 	"strings"
 	"text/tabwriter"
 
+	"stave/canvas"
 	"stave/fem"
 	"stave/fem/analysis"
 	"stave/fem/moving"
@@ -265,16 +266,27 @@ func (g GoverningJSON) Arrangement(u units.System) string {
 }
 
 // FactorsText is a combination's factors in words: "1.35 × permanent + 1.5 × imposed".
+// A negative factor is subtracted: "1 × permanent − 0.5 × wind".
 func FactorsText(c CombinationJSON) string {
-	parts := make([]string, len(c.Factors))
+	var b strings.Builder
 	for i, f := range c.Factors {
-		if f.Train != "" {
-			parts[i] = fmt.Sprintf("%g × train %q", f.Factor, f.Train)
-			continue
+		sign, factor := "+", f.Factor
+		if math.Signbit(factor) {
+			sign, factor = "−", -factor
 		}
-		parts[i] = fmt.Sprintf("%g × %s", f.Factor, f.Case)
+		switch {
+		case i > 0:
+			b.WriteString(" " + sign + " ")
+		case sign == "−":
+			b.WriteString(sign)
+		}
+		if f.Train != "" {
+			fmt.Fprintf(&b, "%g × train %q", factor, f.Train)
+		} else {
+			fmt.Fprintf(&b, "%g × %s", factor, f.Case)
+		}
 	}
-	return strings.Join(parts, " + ")
+	return b.String()
 }
 
 // WithTrains adds to r what CasesResults, reading the analysis alone,
