@@ -2,7 +2,9 @@ package analysis
 
 import (
 	"context"
+	"math"
 	"reflect"
+	"strings"
 	"testing"
 
 	"stave/fem"
@@ -87,5 +89,46 @@ func TestCaseSummaryIsTheCaseAlone(t *testing.T) {
 				t.Errorf("%s: case %q's summary differs from the case solved alone", show.Title(&m), m.Cases[k].Name)
 			}
 		}
+	}
+}
+
+// The envelope's design checks take pattern loading: the shipped three
+// equal spans (L = 4 m, EI = 3.2 MN·m², permanent 6 kN/m, imposed 10 kN/m
+// placed by span), with an allowable stress of 240 MPa. Continuous-beam
+// coefficients, three equal spans (AISC Manual, beam diagrams, from
+// memory): the moment over the first inner support is −0.1·wL² with every
+// span loaded and −7/60·wL² with the two spans beside it loaded, so the
+// strength combination (1.35·6 + 1.5·10 on spans 1 and 2) gives −(0.1·8.1 +
+// 7/60·15 kN/m)·(4 m)² = −40.96 kN·m, 256 MPa on c/I = 0.1/1.6e-5, beyond
+// the 240 MPa allowed (every span loaded gives 231 MPa, within it). The end
+// span's deflection is 0.0069·wL⁴/EI with every span loaded and
+// 0.0099·wL⁴/EI with the end spans loaded (coefficients to two figures):
+// the serviceability combination, 6 kN/m on every span and 10 kN/m on
+// spans 1 and 3, gives about 3.31 + 7.92 = 11.23 mm, beyond span/360 =
+// 11.11 mm (every span loaded gives 8.81 mm, within it).
+func TestEnvelopeChecksTakePatternLoading(t *testing.T) {
+	m := load(t, "three_span_pattern.json")
+	m.Segments[0].Material.Allowable = 240e6
+	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions(), Show: Show{Kind: ShowEnvelope}})
+	if err != nil || a.Err != nil {
+		t.Fatalf("%v, %v", err, a.Err)
+	}
+	found := 0
+	for _, r := range a.Checks {
+		switch {
+		case r.Code == check.CodeStress:
+			found++
+			if math.Abs(r.Value-256e6) > 1e-9*256e6 || r.Status != check.Fail || !strings.Contains(r.Name, "strength") || !strings.Contains(r.Name, "imposed on spans 1, 2") && !strings.Contains(r.Name, "imposed on spans 2, 3") {
+				t.Errorf("%s: %s, %.9g Pa; want a failure at 256 MPa from strength with imposed on spans 1, 2 (or 2, 3)", r.Name, r.Status, r.Value)
+			}
+		case r.Code == check.CodeDeflection && r.Span == [2]float64{0, 4}:
+			found++
+			if math.Abs(r.Value-11.23e-3) > 5e-3*11.23e-3 || r.Status != check.Fail || !strings.Contains(r.Name, "serviceability, imposed on spans 1, 3") {
+				t.Errorf("%s: %s, %.9g m; want a failure at about 11.23 mm from serviceability with imposed on spans 1, 3", r.Name, r.Status, r.Value)
+			}
+		}
+	}
+	if found != 2 {
+		t.Errorf("found %d of the stress check and the first span's deflection check", found)
 	}
 }
