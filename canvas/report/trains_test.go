@@ -168,11 +168,14 @@ func TestTrainPeaksBetweenStations(t *testing.T) {
 	}
 }
 
-// threeAxleModel is the simple span of TestTrainPeaksBetweenStations.
-const threeAxleModel = `{"format": "stave-member", "version": 2,
+// fileHead opens a project file of the tests: its format and units.
+const fileHead = `{"format": "stave-member", "version": 2,
 	"units": {"length": "m", "area": "m²", "second_moment": "m⁴", "force": "N", "moment": "N·m", "line_load": "N/m",
 		"stress": "Pa", "density": "kg/m³", "acceleration": "m/s²", "thermal_expansion": "1/K", "temperature_change": "K",
-		"rotation": "rad", "spring": "N/m", "rotational_spring": "N·m/rad"},
+		"rotation": "rad", "spring": "N/m", "rotational_spring": "N·m/rad"},`
+
+// threeAxleModel is the simple span of TestTrainPeaksBetweenStations.
+const threeAxleModel = fileHead + `
 	"member": {"segments": [{"start": 0, "end": 10, "section": {"area": 0.004, "second_moment": 1.6e-5, "fibre_distance": 0.1},
 		"material": {"elastic_modulus": 2e11}}]},
 	"supports": [{"x": 0, "kind": "pinned"}, {"x": 10, "kind": "roller"}],
@@ -186,14 +189,7 @@ const threeAxleModel = `{"format": "stave-member", "version": 2,
 // and about 1e-11 N·m in the finite element solve, which must read "0 kN·m",
 // not "0 kN·m (FE -5.551e-15 kN·m)" running into the next column.
 func TestMovingSheetLeavesRoundOffOut(t *testing.T) {
-	p, err := storage.Unmarshal([]byte(threeAxleModel))
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := Influence(p, InfluenceRequest{Target: moving.Target{Quantity: fem.QBendingMoment, X: 4.5}, Envelope: true})
-	if err != nil {
-		t.Fatal(err)
-	}
+	p, r := movingMoment(t, threeAxleModel, 4.5)
 	sheet, err := MovingSheet(p, r, 0, units.SI)
 	if err != nil {
 		t.Fatal(err)
@@ -297,22 +293,12 @@ func TestDescribeTrain(t *testing.T) {
 // closed form ("9.095e-15 kN·m"); the smallest is −(10 kN·2.5 m + 20 kN·4
 // m) = −105 kN·m with the heavier axle at the tip.
 func TestTrainTextLeavesRoundOffOut(t *testing.T) {
-	const model = `{"format": "stave-member", "version": 2,
-	"units": {"length": "m", "area": "m²", "second_moment": "m⁴", "force": "N", "moment": "N·m", "line_load": "N/m",
-		"stress": "Pa", "density": "kg/m³", "acceleration": "m/s²", "thermal_expansion": "1/K", "temperature_change": "K",
-		"rotation": "rad", "spring": "N/m", "rotational_spring": "N·m/rad"},
+	const model = fileHead + `
 	"member": {"segments": [{"start": 0, "end": 4, "section": {"area": 0.004, "second_moment": 1.6e-5, "fibre_distance": 0.1},
 		"material": {"elastic_modulus": 2e11}}]},
 	"supports": [{"x": 0, "kind": "fixed"}],
 	"trains": [{"name": "t", "axles": [{"load": 10000}, {"load": 20000, "spacing": 1.5}], "step": 0.01}]}`
-	p, err := storage.Unmarshal([]byte(model))
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := Influence(p, InfluenceRequest{Target: moving.Target{Quantity: fem.QBendingMoment, X: 1}, Envelope: true})
-	if err != nil {
-		t.Fatal(err)
-	}
+	_, r := movingMoment(t, model, 1)
 	var b strings.Builder
 	WriteInfluenceText(&b, "cantilever", r, units.SI)
 	out := b.String()
@@ -327,4 +313,19 @@ func TestTrainTextLeavesRoundOffOut(t *testing.T) {
 	if !strings.Contains(rows[0], "largest   0 kN·m at") || !strings.Contains(rows[0], "(finite elements 0 kN·m)") || !strings.Contains(rows[1], "smallest  -105.0 kN·m at x = 0 m") {
 		t.Errorf("bending moment rows:\n%s\n%s", rows[0], rows[1])
 	}
+}
+
+// movingMoment is the project of the file text model and the influence
+// line of its bending moment at x, with its trains' envelopes.
+func movingMoment(t *testing.T, model string, x float64) (*storage.Project, *MovingLoads) {
+	t.Helper()
+	p, err := storage.Unmarshal([]byte(model))
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := Influence(p, InfluenceRequest{Target: moving.Target{Quantity: fem.QBendingMoment, X: x}, Envelope: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return p, r
 }
