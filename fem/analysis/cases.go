@@ -326,12 +326,21 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 			continue
 		}
 		// value is the checked quantity of one load set at x: the
-		// deflection from the line through the span's ends, or the stress
-		// in the bottom fibre (top when bottom is false).
+		// deflection from the line through the span's ends (from its
+		// support on an overhang, as check measures it without
+		// settlements), or the stress in the bottom fibre (top when bottom
+		// is false).
+		from, to := r.Span[0], r.Span[1]
+		held := func(x float64) bool { return restrainsAcross(&a.Model, x) }
 		value := func(fixed bool, j int, x float64, bottom bool) float64 {
 			if r.Code == check.CodeDeflection {
-				from, to := r.Span[0], r.Span[1]
 				w0, w1 := fields(fixed, j, from).Deflection, fields(fixed, j, to).Deflection
+				switch {
+				case !held(from):
+					w0 = w1
+				case !held(to):
+					w1 = w0
+				}
 				return fields(fixed, j, x).Deflection - w0 - (w1-w0)*(x-from)/(to-from)
 			}
 			f := fields(fixed, j, x)
@@ -378,6 +387,15 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 		}
 	}
 	return words
+}
+
+// restrainsAcross says whether a support of m at x holds it rigidly
+// across, as the deflection checks' spans end at such supports.
+func restrainsAcross(m *fem.Model, x float64) bool {
+	tol := 1e-9 * m.Length()
+	return slices.ContainsFunc(m.Supports, func(s fem.Support) bool {
+		return math.Abs(s.X-x) <= tol && s.Kind.Restrains(fem.Transverse)
+	})
 }
 
 // checkArrangement solves combination k with the shares on loaded and its
