@@ -150,8 +150,8 @@ func TestOverhangCheckTakesPatternLoading(t *testing.T) {
 	m := fem.Model{
 		Segments: []fem.Segment{{Start: 0, End: 12, Section: fem.Section{Area: 0.004, SecondMoment: 1.6e-5, FibreDistance: 0.1},
 			Material: fem.Material{Elastic: 2e11}}},
-		Supports: []fem.Support{{X: 2, Kind: fem.Pinned}, {X: 10, Kind: fem.Roller}},
-		Cases: []fem.LoadCase{{Name: "permanent", DistributedLoad: uniform(-3e3)}, {Name: "imposed", DistributedLoad: uniform(-10e3), BySpan: true}},
+		Supports:     []fem.Support{{X: 2, Kind: fem.Pinned}, {X: 10, Kind: fem.Roller}},
+		Cases:        []fem.LoadCase{{Name: "permanent", DistributedLoad: uniform(-3e3)}, {Name: "imposed", DistributedLoad: uniform(-10e3), BySpan: true}},
 		Combinations: []fem.Combination{{Name: "U", Kind: fem.Serviceability, Factors: []fem.CaseFactor{{Case: 0, Factor: 1.35}, {Case: 1, Factor: 1.5}}}},
 	}
 	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
