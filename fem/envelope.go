@@ -323,8 +323,10 @@ type envelopeWalk struct {
 	// The polynomials of one element: the shares', and one combination's
 	// shares with its factors.
 	sharePoly [][envelopeValues]Polynomial
-	parts     []Polynomial
-	cuts      []float64
+	// tolerances are the shares' round-off (shareTolerance).
+	tolerances [][envelopeValues]float64
+	parts      []Polynomial
+	cuts       []float64
 	// patterned says which combinations switch span shares.
 	patterned []bool
 }
@@ -342,7 +344,7 @@ type envelopePoint struct {
 
 func newEnvelopeWalk(cs *CombinationSolutions) *envelopeWalk {
 	w := &envelopeWalk{cs: cs, fixed: make([]Interval, len(cs.Fixed)), shares: make([]Interval, len(cs.Shares)),
-		sharePoly: make([][envelopeValues]Polynomial, len(cs.Shares))}
+		sharePoly: make([][envelopeValues]Polynomial, len(cs.Shares)), tolerances: shareTolerances(cs.Shares)}
 	w.degrees = cs.Fixed[0].degrees()
 	if cs.polynomialExact() {
 		w.exact = true
@@ -640,20 +642,76 @@ func (w *envelopeWalk) governing(p *envelopePoint, i int, upper bool) Governing 
 			cs.Shares[j].elementInterval(p.element, &iv)
 		}
 		poly := polynomialOf(&iv, i)
-		if v := f * poly.At(p.xi); upper && v > 0 || !upper && v < 0 {
+		v := f * poly.At(p.xi)
+		if math.Abs(v) <= math.Abs(f)*w.tolerances[j][i] {
+			continue // round-off where the share does nothing
+		}
+		if upper && v > 0 || !upper && v < 0 {
 			g.Loaded = append(g.Loaded, cs.Loads.Shares[j])
 		}
 	}
 	return g
 }
 
-// reactionEnvelope is the envelope of every support's reaction.
+// shareTolerance is the size below which a share's value i (an index of
+// envelopeValues) is round-off: negligible against the size of the
+// share's own forces (forceFloor: its loads, reactions and imposed
+// deformations), in the unit of value i.
+func shareTolerance(s *Solution, i int) float64 {
+	floor := forceFloor(s)
+	L := s.Model.Length()
+	size := floor[1] // the stresses, and the fibres' after the quantities
+	if i < polynomialQuantities {
+		switch Quantity(i) {
+		case QAxialDisplacement, QDeflection:
+			size = floor[2]
+		case QRotation:
+			size = floor[2] / L
+		case QAxialForce, QShearForce:
+			size = floor[0]
+		case QBendingMoment:
+			size = floor[0] * L
+		}
+	}
+	return negligible * size
+}
+
+// shareTolerances are shareTolerance of every value of every share.
+func shareTolerances(shares []*Solution) [][envelopeValues]float64 {
+	out := make([][envelopeValues]float64, len(shares))
+	for j, s := range shares {
+		for i := range envelopeValues {
+			out[j][i] = shareTolerance(s, i)
+		}
+	}
+	return out
+}
+
+// reactionEnvelope is the envelope of every support's reaction. A
+// reaction negligible against the size of the forces of every load set
+// (forceFloor: their loads, reactions and imposed deformations fully
+// restrained) is round-off, such as the axial reaction of a member free to
+// expand, and reads as zero.
 func (cs *CombinationSolutions) reactionEnvelope() []ReactionEnvelope {
+	force := 0.0
+	for _, s := range slices.Concat(cs.Fixed, cs.Shares) {
+		force = max(force, forceFloor(s)[0])
+	}
+	L := cs.Fixed[0].Model.Length()
 	out := make([]ReactionEnvelope, len(cs.Fixed[0].Reactions))
 	for i, r := range cs.Fixed[0].Reactions {
 		re := ReactionEnvelope{Support: r.Support, X: r.X}
 		for d := range 3 {
-			re.Min[d], re.Max[d] = cs.linearEnvelope(r.X, func(s *Solution) float64 { return s.Reactions[i].Force[d] })
+			re.Min[d], re.Max[d] = cs.linearEnvelope(r.X, func(s *Solution) float64 { return s.Reactions[i].Force[d] }, Dof(d) == Rotation)
+			size := force
+			if Dof(d) == Rotation {
+				size *= L
+			}
+			for _, g := range []*Governing{&re.Min[d], &re.Max[d]} {
+				if math.Abs(g.Value) <= negligible*size {
+					g.Value = 0
+				}
+			}
 		}
 		out[i] = re
 	}
@@ -670,7 +728,7 @@ func (cs *CombinationSolutions) foundationEnvelope() []FoundationEnvelope {
 	for i, r := range cs.Fixed[0].Foundations {
 		fe := FoundationEnvelope{Foundation: r.Foundation, Start: r.Start, End: r.End}
 		for d := range 2 {
-			fe.Min[d], fe.Max[d] = cs.linearEnvelope(0.5*(r.Start+r.End), func(s *Solution) float64 { return s.Foundations[i].Force[d] })
+			fe.Min[d], fe.Max[d] = cs.linearEnvelope(0.5*(r.Start+r.End), func(s *Solution) float64 { return s.Foundations[i].Force[d] }, false)
 		}
 		out[i] = fe
 	}
@@ -680,13 +738,19 @@ func (cs *CombinationSolutions) foundationEnvelope() []FoundationEnvelope {
 // linearEnvelope is the smallest and largest over every combination and
 // arrangement of a result that is linear in the loads, read from each
 // solution by value, placed at x.
-func (cs *CombinationSolutions) linearEnvelope(x float64, value func(*Solution) float64) (lo, hi Governing) {
+func (cs *CombinationSolutions) linearEnvelope(x float64, value func(*Solution) float64, moment bool) (lo, hi Governing) {
 	shares := make([]float64, len(cs.Shares))
+	tolerances := make([]float64, len(cs.Shares))
 	for j, sh := range cs.Shares {
 		shares[j] = value(sh)
+		q := QShearForce
+		if moment {
+			q = QBendingMoment
+		}
+		tolerances[j] = shareTolerance(sh, int(q))
 	}
 	for c, s := range cs.Fixed {
-		l, h := cs.worst(c, value(s), shares)
+		l, h := cs.worst(c, value(s), shares, tolerances)
 		if c == 0 || l.Value < lo.Value {
 			lo = l
 		}
@@ -700,10 +764,15 @@ func (cs *CombinationSolutions) linearEnvelope(x float64, value func(*Solution) 
 
 // worst is the smallest and largest value of combination c at one place,
 // where its loads always on give a and the shares give shares (at factor
-// 1), with the spans loaded for each.
-func (cs *CombinationSolutions) worst(c int, a float64, shares []float64) (lo, hi Governing) {
+// 1), with the spans loaded for each. A share whose value is within its
+// tolerance (shareTolerance) of zero does nothing there: its round-off
+// loads no span.
+func (cs *CombinationSolutions) worst(c int, a float64, shares, tolerances []float64) (lo, hi Governing) {
 	lo, hi = Governing{Value: a, Combination: c}, Governing{Value: a, Combination: c}
 	for j, f := range cs.Loads.Factors[c] {
+		if math.Abs(shares[j]) <= tolerances[j] {
+			continue
+		}
 		switch v := f * shares[j]; {
 		case v > 0:
 			hi.Value += v
@@ -740,6 +809,7 @@ func (cs *CombinationSolutions) At(x float64, side Side, exact bool) EnvelopeSam
 		return cs.Fixed[k].At(x, side)
 	}
 	shares := make([][envelopeValues]float64, len(cs.Shares))
+	tolerances := shareTolerances(cs.Shares)
 	for j := range shares {
 		f := at(j, true)
 		shares[j] = sampleValues(&f)
@@ -747,14 +817,15 @@ func (cs *CombinationSolutions) At(x float64, side Side, exact bool) EnvelopeSam
 	var lo, hi [envelopeValues]float64
 	var loBy, hiBy [envelopeValues]int
 	column := make([]float64, len(cs.Shares))
+	tolerance := make([]float64, len(cs.Shares))
 	for c := range cs.Fixed {
 		f := at(c, false)
 		a := sampleValues(&f)
 		for i := range envelopeValues {
 			for j := range shares {
-				column[j] = shares[j][i]
+				column[j], tolerance[j] = shares[j][i], tolerances[j][i]
 			}
-			l, h := cs.worst(c, a[i], column)
+			l, h := cs.worst(c, a[i], column, tolerance)
 			if c == 0 || l.Value < lo[i] {
 				lo[i], loBy[i] = l.Value, c
 			}

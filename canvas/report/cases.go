@@ -3,11 +3,12 @@ package report
 import (
 	"fmt"
 	"io"
+	"math"
 	"slices"
-	"stave/canvas"
 	"strings"
 	"text/tabwriter"
 
+	"stave/canvas"
 	"stave/fem"
 	"stave/fem/analysis"
 	"stave/fem/moving"
@@ -91,8 +92,9 @@ type GoverningJSON struct {
 	Combination string  `json:"combination"`
 	// LoadedSpans are, for each case of the combination placed by span,
 	// the spans loaded in the worst arrangement (counted from 1); the
-	// others are unloaded.
-	LoadedSpans []LoadedSpansJSON `json:"loaded_spans,omitempty"`
+	// others are unloaded. Empty when the combination places no case by
+	// span.
+	LoadedSpans []LoadedSpansJSON `json:"loaded_spans"`
 	// Train is where the combination's moving load train stands when
 	// the extreme comes from a combination that takes one.
 	Train *TrainPlacementJSON `json:"train,omitempty"`
@@ -193,7 +195,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 }
 
 func governingJSON(m *fem.Model, c *analysis.Cases, g fem.Governing) GoverningJSON {
-	out := GoverningJSON{Value: g.Value, X: g.X, Combination: c.Combinations[g.Combination].Name}
+	out := GoverningJSON{Value: g.Value, X: g.X, Combination: c.Combinations[g.Combination].Name, LoadedSpans: []LoadedSpansJSON{}}
 	for _, s := range g.Loaded {
 		name := m.LoadSetName(s.Case)
 		i := slices.IndexFunc(out.LoadedSpans, func(l LoadedSpansJSON) bool { return l.Case == name })
@@ -215,12 +217,35 @@ func governingJSON(m *fem.Model, c *analysis.Cases, g fem.Governing) GoverningJS
 	return out
 }
 
-// Arrangement is g's loaded spans in words: "imposed on spans 1, 3"; ""
-// when its combination places nothing by span.
-func (g GoverningJSON) Arrangement() string {
+// everySpan are the loaded spans of combination name of m with a train:
+// every one of its n spans for each case it places by span (a combination
+// that takes a train is worked out with every span loaded).
+func everySpan(m *fem.Model, name string, n int) []LoadedSpansJSON {
+	out := []LoadedSpansJSON{}
+	for _, cb := range m.Combinations {
+		if cb.Name != name {
+			continue
+		}
+		for _, cf := range cb.Factors {
+			if cf.Case < len(m.Cases) && m.Cases[cf.Case].BySpan && cf.Factor != 0 {
+				spans := make([]int, n)
+				for i := range spans {
+					spans[i] = i + 1
+				}
+				out = append(out, LoadedSpansJSON{Case: m.LoadSetName(cf.Case), Spans: spans})
+			}
+		}
+	}
+	return out
+}
+
+// Arrangement is g's loaded spans in words, and its train's position in
+// units u: "imposed on spans 1, 3"; "" when its combination places nothing
+// by span and takes no train.
+func (g GoverningJSON) Arrangement(u units.System) string {
 	var parts []string
 	if t := g.Train; t != nil {
-		parts = append(parts, fmt.Sprintf("train %q, front at %s m %s", t.Name, units.FormatNumber(t.Front), t.Direction))
+		parts = append(parts, fmt.Sprintf("train %q, front at %s %s", t.Name, u.Format(units.Position, t.Front), t.Direction))
 	}
 	for _, l := range g.LoadedSpans {
 		if len(l.Spans) == 0 {
@@ -241,16 +266,27 @@ func (g GoverningJSON) Arrangement() string {
 }
 
 // FactorsText is a combination's factors in words: "1.35 × permanent + 1.5 × imposed".
+// A negative factor is subtracted: "1 × permanent − 0.5 × wind".
 func FactorsText(c CombinationJSON) string {
-	parts := make([]string, len(c.Factors))
+	var b strings.Builder
 	for i, f := range c.Factors {
-		if f.Train != "" {
-			parts[i] = fmt.Sprintf("%g × train %q", f.Factor, f.Train)
-			continue
+		sign, factor := "+", f.Factor
+		if math.Signbit(factor) {
+			sign, factor = "−", -factor
 		}
-		parts[i] = fmt.Sprintf("%g × %s", f.Factor, f.Case)
+		switch {
+		case i > 0:
+			b.WriteString(" " + sign + " ")
+		case sign == "−":
+			b.WriteString(sign)
+		}
+		if f.Train != "" {
+			fmt.Fprintf(&b, "%g × train %q", factor, f.Train)
+		} else {
+			fmt.Fprintf(&b, "%g × %s", factor, f.Case)
+		}
 	}
-	return strings.Join(parts, " + ")
+	return b.String()
 }
 
 // WithTrains adds to r what CasesResults, reading the analysis alone,
@@ -309,8 +345,9 @@ func (r *CasesJSON) addTrainExtremes(m *fem.Model, trains []TrainResult) {
 	unstressedAlong := axial != nil && axial.Max.Value == 0 && axial.Min.Value == 0
 	for _, tr := range trains {
 		for _, c := range tr.Combinations {
+			loaded := everySpan(m, c.Combination, len(r.Envelope.Spans))
 			governing := func(e TrainExtreme) GoverningJSON {
-				return GoverningJSON{Value: e.Value, X: e.X, Combination: c.Combination,
+				return GoverningJSON{Value: e.Value, X: e.X, Combination: c.Combination, LoadedSpans: loaded,
 					Train: &TrainPlacementJSON{Name: tr.Train.Name, Front: e.Front, Direction: e.Direction}}
 			}
 			for _, w := range c.Worst {
@@ -409,8 +446,8 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 	fmt.Fprintln(tw, "  quantity\tlargest\tat x\tgoverning\tsmallest\tat x\tgoverning")
 	for _, q := range r.Envelope.Quantities {
 		k := q.Quantity.Info().Unit
-		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\t%s\n", q.Quantity.Info().Name, u.Format(k, q.Max.Value), pos(q.Max.X), governingWords(q.Max),
-			u.Format(k, q.Min.Value), pos(q.Min.X), governingWords(q.Min))
+		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\t%s\n", q.Quantity.Info().Name, u.Format(k, q.Max.Value), pos(q.Max.X), governingWords(q.Max, u),
+			u.Format(k, q.Min.Value), pos(q.Min.X), governingWords(q.Min, u))
 	}
 	tw.Flush()
 	fmt.Fprintln(tw, "\nReaction envelope (forces of the supports on the member)")
@@ -425,7 +462,7 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 			if hi.Value == 0 && lo.Value == 0 {
 				continue
 			}
-			fmt.Fprintf(tw, "  %d %s\t%s\t%s\t%s\t%s\t%s\t%s\n", re.Support, re.Kind, pos(re.X), name, u.Format(k, hi.Value), governingWords(hi), u.Format(k, lo.Value), governingWords(lo))
+			fmt.Fprintf(tw, "  %d %s\t%s\t%s\t%s\t%s\t%s\t%s\n", re.Support, re.Kind, pos(re.X), name, u.Format(k, hi.Value), governingWords(hi, u), u.Format(k, lo.Value), governingWords(lo, u))
 		}
 	}
 	tw.Flush()
@@ -439,7 +476,7 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 					continue
 				}
 				fmt.Fprintf(tw, "  %d\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", f.Foundation, pos(f.Start), pos(f.End), name,
-					u.Format(units.Force, hi.Value), governingWords(hi), u.Format(units.Force, lo.Value), governingWords(lo))
+					u.Format(units.Force, hi.Value), governingWords(hi, u), u.Format(units.Force, lo.Value), governingWords(lo, u))
 			}
 		}
 		tw.Flush()
@@ -461,9 +498,10 @@ func spanWords(spans [][2]float64) string {
 	return fmt.Sprintf(" and every arrangement of the %d spans for the cases placed by span", len(spans))
 }
 
-// governingWords names what gives an extreme: "ULS 1 (imposed on spans 1, 3)".
-func governingWords(g GoverningJSON) string {
-	if a := g.Arrangement(); a != "" {
+// governingWords names what gives an extreme, positions in units u:
+// "ULS 1 (imposed on spans 1, 3)".
+func governingWords(g GoverningJSON, u units.System) string {
+	if a := g.Arrangement(u); a != "" {
 		return g.Combination + " (" + a + ")"
 	}
 	return g.Combination
@@ -522,8 +560,8 @@ func sheetCaseLines(src Source) []string {
 		case fem.QBendingMoment:
 			k := q.Quantity.Info().Unit
 			lines = append(lines, fmt.Sprintf("Envelope of %s: largest %s at %s, %s; smallest %s at %s, %s.", q.Quantity.Info().Name,
-				u.Format(k, q.Max.Value), u.Format(units.Position, q.Max.X), governingWords(q.Max),
-				u.Format(k, q.Min.Value), u.Format(units.Position, q.Min.X), governingWords(q.Min)))
+				u.Format(k, q.Max.Value), u.Format(units.Position, q.Max.X), governingWords(q.Max, u),
+				u.Format(k, q.Min.Value), u.Format(units.Position, q.Min.X), governingWords(q.Min, u)))
 		}
 	}
 	// transverse is the range of one transverse envelope, numbered n;
@@ -533,7 +571,7 @@ func sheetCaseLines(src Source) []string {
 		if hi.Value == 0 && lo.Value == 0 {
 			return ""
 		}
-		return fmt.Sprintf("%d: %s (%s) to %s (%s)", n, u.Format(units.Force, lo.Value), governingWords(lo), u.Format(units.Force, hi.Value), governingWords(hi))
+		return fmt.Sprintf("%d: %s (%s) to %s (%s)", n, u.Format(units.Force, lo.Value), governingWords(lo, u), u.Format(units.Force, hi.Value), governingWords(hi, u))
 	}
 	var reactions, ground []string
 	for _, re := range r.Envelope.Reactions {

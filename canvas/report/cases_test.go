@@ -106,3 +106,19 @@ func TestEnvelopeIsExact(t *testing.T) {
 		t.Errorf("the envelope's heading does not say whose values it holds:\n%s", text.String())
 	}
 }
+
+// A combination's factors in words, a negative factor subtracted.
+func TestFactorsText(t *testing.T) {
+	for _, c := range []struct {
+		factors []FactorJSON
+		want    string
+	}{
+		{[]FactorJSON{{Case: "permanent", Factor: 1.35}, {Case: "imposed", Factor: 1.5}}, "1.35 × permanent + 1.5 × imposed"},
+		{[]FactorJSON{{Case: "permanent", Factor: 1}, {Case: "wind", Factor: -0.5}, {Train: "cart", Factor: 1.5}}, `1 × permanent − 0.5 × wind + 1.5 × train "cart"`},
+		{[]FactorJSON{{Case: "uplift", Factor: -1}, {Case: "permanent", Factor: 0}}, "−1 × uplift + 0 × permanent"},
+	} {
+		if got := FactorsText(CombinationJSON{Factors: c.factors}); got != c.want {
+			t.Errorf("got %q, want %q", got, c.want)
+		}
+	}
+}

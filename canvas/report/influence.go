@@ -5,6 +5,7 @@ import (
 	"io"
 	"math"
 	"slices"
+	"strings"
 	"text/tabwriter"
 
 	"stave/canvas"
@@ -85,18 +86,8 @@ func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
 		}
 		return v
 	}
-	// Where the line jumps, at the reading point, the load read there
-	// stands on the side of the section away from the one read, as the
-	// finite element load on that node does: just left of it for the
-	// value just right. The shear force just right of a load on the point
-	// read the load as if past it (13/32 instead of 13/32 − 1 for a load
-	// at midspan of two equal spans), beside the finite element −19/32.
-	side := fem.Right
-	if !r.Target.Reaction && r.Target.Side == fem.Right {
-		side = fem.Left
-	}
 	for i, s := range positions {
-		sample := InfluenceSample{S: s, Exact: clean(line.At(s, side))}
+		sample := InfluenceSample{S: s, Exact: clean(sampleAt(line, r.Target, s, L))}
 		if fe != nil {
 			fe[i] = clean(fe[i])
 			sample.FE, sample.FEAt = &fe[i], &at[i]
@@ -109,6 +100,26 @@ func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
 	}
 	out.Trains = trainResults(p, in, out.Mesh, target, r.Envelope)
 	return out, nil
+}
+
+// sampleAt is line l of target t at load position s on a member of length
+// L. A load on t's own point stands on the far side of the cut from the
+// side t is read on (the shear force just right of x has a load at x on
+// its left), as the finite element load on the node there does. The line
+// that jumps there, the shear force's, is then the limit on the side read
+// less the unit load crossing the cut, which holds at an end of the member
+// too, where the line has no piece beyond.
+func sampleAt(l *moving.Line, t moving.Target, s, L float64) float64 {
+	if t.Reaction || t.Quantity != fem.QShearForce || math.Abs(s-t.X) > 1e-12*L {
+		return l.At(s, fem.Right)
+	}
+	switch {
+	case t.Side == fem.Right && t.X < L:
+		return l.At(s, fem.Right) - 1
+	case t.Side == fem.Left && t.X > 0:
+		return l.At(s, fem.Left) + 1
+	}
+	return l.At(s, fem.Right)
 }
 
 // influenceUnit is the unit of the line's ordinates in u: the target's
@@ -179,7 +190,7 @@ func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *mo
 		case tr.Target && target != nil:
 			kind := targetKind(*target)
 			fmt.Fprintf(w, "  %s: largest %s, smallest %s\n", describeTarget(*target, u),
-				trainExtremeText(tr.Largest, kind, u, false), trainExtremeText(tr.Smallest, kind, u, false))
+				trainExtremeText(tr.Largest, kind, u, false, 0), trainExtremeText(tr.Smallest, kind, u, false, 0))
 		case target != nil:
 			fmt.Fprintf(w, "  %s: 0 wherever the train stands; a train's loads act across the member and move no axial force or axial displacement\n", describeTarget(*target, u))
 		}
@@ -187,11 +198,7 @@ func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *mo
 			continue
 		}
 		fmt.Fprintln(w, "  over all positions (front: the x of the first axle; finite elements: the train solved there)")
-		for _, q := range tr.Worst {
-			k := q.Quantity.Info().Unit
-			fmt.Fprintf(tw, "    %s\tlargest\t%s\n", q.Quantity, trainExtremeText(q.Largest, k, u, true))
-			fmt.Fprintf(tw, "    \tsmallest\t%s\n", trainExtremeText(q.Smallest, k, u, true))
-		}
+		writeWorst(tw, tr.Worst, m.Length(), u)
 		for _, re := range tr.Envelope.Reactions {
 			k := units.Force
 			if re.Motion == fem.Rotation {
@@ -199,32 +206,70 @@ func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *mo
 			}
 			hi := TrainExtreme{Value: re.Max, X: m.Supports[re.Support].X, Direction: re.MaxAt.Direction.String(), Front: re.MaxAt.Front}
 			lo := TrainExtreme{Value: re.Min, X: hi.X, Direction: re.MinAt.Direction.String(), Front: re.MinAt.Front}
-			fmt.Fprintf(tw, "    %s reaction of support %d\tlargest\t%s\n", re.Motion, re.Support+1, trainExtremeText(hi, k, u, false))
-			fmt.Fprintf(tw, "    \tsmallest\t%s\n", trainExtremeText(lo, k, u, false))
+			size := max(math.Abs(re.Max), math.Abs(re.Min))
+			fmt.Fprintf(tw, "    %s reaction of support %d\tlargest\t%s\n", re.Motion, re.Support+1, trainExtremeText(hi, k, u, false, size))
+			fmt.Fprintf(tw, "    \tsmallest\t%s\n", trainExtremeText(lo, k, u, false, size))
 		}
 		tw.Flush()
 		for _, c := range tr.Combinations {
 			fmt.Fprintf(w, "  in combination %q, factor %s on top of its cases (exact solution, every span loaded)\n", c.Combination, units.FormatNumber(c.Factor))
-			for _, q := range c.Worst {
-				k := q.Quantity.Info().Unit
-				fmt.Fprintf(tw, "    %s\tlargest\t%s\n", q.Quantity, trainExtremeText(q.Largest, k, u, true))
-				fmt.Fprintf(tw, "    \tsmallest\t%s\n", trainExtremeText(q.Smallest, k, u, true))
-			}
+			writeWorst(tw, c.Worst, m.Length(), u)
 			tw.Flush()
 		}
 	}
 }
 
+// writeWorst writes the rows of the extremes ws on a member of length L,
+// m, each measured against the size of its kind over ws (the deflection
+// and the rotation times L, the shear force and the moment over L, the
+// stress), so that the round-off of a value that vanishes (the largest
+// moment of a cantilever under loads acting down) reads as zero.
+func writeWorst(tw io.Writer, ws []QuantityWorst, L float64, u units.System) {
+	var kinds [3]float64
+	kind := func(q fem.Quantity) (int, float64) {
+		switch q {
+		case fem.QDeflection:
+			return 0, 1
+		case fem.QRotation:
+			return 0, L
+		case fem.QShearForce:
+			return 1, 1
+		case fem.QBendingMoment:
+			return 1, 1 / L
+		}
+		return 2, 1
+	}
+	for _, q := range ws {
+		i, scale := kind(q.Quantity)
+		for _, e := range []TrainExtreme{q.Largest, q.Smallest} {
+			kinds[i] = max(kinds[i], math.Abs(e.Value)*scale)
+		}
+	}
+	for _, q := range ws {
+		k := q.Quantity.Info().Unit
+		i, scale := kind(q.Quantity)
+		size := kinds[i] / scale
+		fmt.Fprintf(tw, "    %s\tlargest\t%s\n", q.Quantity, trainExtremeText(q.Largest, k, u, true, size))
+		fmt.Fprintf(tw, "    \tsmallest\t%s\n", trainExtremeText(q.Smallest, k, u, true, size))
+	}
+}
+
 // trainExtremeText writes an extreme with the train's position, and where
-// it is when at says so.
-func trainExtremeText(e TrainExtreme, k units.Kind, u units.System, at bool) string {
-	s := u.Format(k, e.Value)
+// it is when at says so; values within round-off of size read as zero.
+func trainExtremeText(e TrainExtreme, k units.Kind, u units.System, at bool, size float64) string {
+	value := func(v float64) string {
+		if math.Abs(v) <= 1e-9*size {
+			v = 0
+		}
+		return u.Format(k, v)
+	}
+	s := value(e.Value)
 	if at {
 		s += " at x = " + u.Format(units.Position, e.X)
 	}
 	s += fmt.Sprintf(", front at %s %s", u.Format(units.Position, e.Front), e.Direction)
 	if e.FE != nil {
-		s += " (finite elements " + u.Format(k, *e.FE) + ")"
+		s += " (finite elements " + value(*e.FE) + ")"
 	}
 	return s
 }
@@ -243,35 +288,36 @@ func describeTarget(t moving.Target, u units.System) string {
 
 // describeTrain says what a train is, in one line.
 func describeTrain(t *moving.Train, label string, L float64, u units.System) string {
-	s := label + ":"
-	axles := t.Axles
-	if len(axles) > 0 {
-		s += " " + u.Format(units.Force, axles[0].Load)
+	var parts []string
+	if axles := t.Axles; len(axles) > 0 {
+		s := u.Format(units.Force, axles[0].Load)
 		axles = axles[1:]
-	}
-	// A run of equal axles at equal spacing is written once with its count:
-	// a long train would otherwise fill a page with one line.
-	for len(axles) > 0 {
-		a, k := axles[0], 1
-		for k < len(axles) && axles[k] == a {
-			k++
+		// A run of equal axles at equal spacing is written once with its
+		// count: a long train would otherwise fill a page with one line.
+		for len(axles) > 0 {
+			a, k := axles[0], 1
+			for k < len(axles) && axles[k] == a {
+				k++
+			}
+			if k > 2 {
+				s += fmt.Sprintf(" then %d times", k)
+			} else {
+				k = 1
+			}
+			s += fmt.Sprintf(" –%s– %s", u.Format(units.Position, a.Spacing), u.Format(units.Force, a.Load))
+			axles = axles[k:]
 		}
-		if k > 2 {
-			s += fmt.Sprintf(" then %d times", k)
-		} else {
-			k = 1
+		if n := len(t.Axles); n > 3 {
+			s += fmt.Sprintf("; %d axles over %s", n, u.Format(units.Position, t.Length()))
 		}
-		s += fmt.Sprintf(" –%s– %s", u.Format(units.Position, a.Spacing), u.Format(units.Force, a.Load))
-		axles = axles[k:]
-	}
-	if n := len(t.Axles); n > 3 {
-		s += fmt.Sprintf("; %d axles over %s", n, u.Format(units.Position, t.Length()))
+		parts = append(parts, s)
 	}
 	if ul := t.Uniform; ul.Load > 0 {
-		s += fmt.Sprintf("; %s over %s from %s behind the front", u.Format(units.LineLoad, ul.Load), u.Format(units.Position, ul.Length), u.Format(units.Position, ul.Start))
+		parts = append(parts, fmt.Sprintf("%s over %s from %s behind the front", u.Format(units.LineLoad, ul.Load), u.Format(units.Position, ul.Length), u.Format(units.Position, ul.Start)))
 	}
 	from, to := t.Run(L)
-	return s + fmt.Sprintf("; runs %s between x = %s and %s", directionWords(t.Direction), u.Format(units.Position, from), u.Format(units.Position, to))
+	parts = append(parts, fmt.Sprintf("runs %s between x = %s and %s", directionWords(t.Direction), u.Format(units.Position, from), u.Format(units.Position, to)))
+	return label + ": " + strings.Join(parts, "; ")
 }
 
 func directionWords(d moving.Direction) string {

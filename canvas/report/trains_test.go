@@ -168,11 +168,14 @@ func TestTrainPeaksBetweenStations(t *testing.T) {
 	}
 }
 
-// threeAxleModel is the simple span of TestTrainPeaksBetweenStations.
-const threeAxleModel = `{"format": "stave-member", "version": 2,
+// fileHead opens a project file of the tests: its format and units.
+const fileHead = `{"format": "stave-member", "version": 2,
 	"units": {"length": "m", "area": "m²", "second_moment": "m⁴", "force": "N", "moment": "N·m", "line_load": "N/m",
 		"stress": "Pa", "density": "kg/m³", "acceleration": "m/s²", "thermal_expansion": "1/K", "temperature_change": "K",
-		"rotation": "rad", "spring": "N/m", "rotational_spring": "N·m/rad"},
+		"rotation": "rad", "spring": "N/m", "rotational_spring": "N·m/rad"},`
+
+// threeAxleModel is the simple span of TestTrainPeaksBetweenStations.
+const threeAxleModel = fileHead + `
 	"member": {"segments": [{"start": 0, "end": 10, "section": {"area": 0.004, "second_moment": 1.6e-5, "fibre_distance": 0.1},
 		"material": {"elastic_modulus": 2e11}}]},
 	"supports": [{"x": 0, "kind": "pinned"}, {"x": 10, "kind": "roller"}],
@@ -186,14 +189,7 @@ const threeAxleModel = `{"format": "stave-member", "version": 2,
 // and about 1e-11 N·m in the finite element solve, which must read "0 kN·m",
 // not "0 kN·m (FE -5.551e-15 kN·m)" running into the next column.
 func TestMovingSheetLeavesRoundOffOut(t *testing.T) {
-	p, err := storage.Unmarshal([]byte(threeAxleModel))
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := Influence(p, InfluenceRequest{Target: moving.Target{Quantity: fem.QBendingMoment, X: 4.5}, Envelope: true})
-	if err != nil {
-		t.Fatal(err)
-	}
+	p, r := movingMoment(t, threeAxleModel, 4.5)
 	sheet, err := MovingSheet(p, r, 0, units.SI)
 	if err != nil {
 		t.Fatal(err)
@@ -278,32 +274,78 @@ func TestTrainOnAxialTargetSaysNone(t *testing.T) {
 	}
 }
 
-// A train's line names a run of equal axles at equal spacing once, with
-// its count, and the whole train's axles and length; a short train keeps
-// every axle. The loads and spacings are invented demo data; the length is
-// their sum (Train.Length).
-func TestDescribeTrainGroupsEqualAxles(t *testing.T) {
+// A train is described in one line: its axles, its uniform load and its
+// run, each part once, whatever parts it has; a run of equal axles at
+// equal spacing is named once, with its count, and a long train's axles
+// and length follow (their sum, Train.Length). The loads and spacings are
+// invented demo data.
+func TestDescribeTrain(t *testing.T) {
 	long := moving.Train{Axles: []moving.Axle{{Load: 20e3}}}
 	for range 40 {
 		long.Axles = append(long.Axles, moving.Axle{Load: 5e3, Spacing: 0.25})
 	}
 	long.Axles = append(long.Axles, moving.Axle{Load: 20e3, Spacing: 1})
-	tests := []struct {
+	for _, c := range []struct {
 		name  string
 		train moving.Train
 		want  string
 	}{
-		{"two axles", moving.Train{Axles: []moving.Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}},
-			"t: 42.00 kN –3.200 m– 42.00 kN; runs"},
+		{"axles", moving.Train{Axles: []moving.Axle{{Load: 10e3}, {Load: 20e3, Spacing: 1.5}}},
+			`t: 10.00 kN –1.500 m– 20.00 kN; runs both ways between x = 0 m and 8.000 m`},
+		{"a uniform load alone", moving.Train{Uniform: moving.UniformLoad{Load: 5e3, Length: 2}, Direction: moving.Forward},
+			`t: 5.000 kN/m over 2.000 m from 0 m behind the front; runs forward (towards +x) between x = 0 m and 8.000 m`},
+		{"both", moving.Train{Axles: []moving.Axle{{Load: 10e3}}, Uniform: moving.UniformLoad{Load: 5e3, Start: 1, Length: 2}, From: 1, To: 7},
+			`t: 10.00 kN; 5.000 kN/m over 2.000 m from 1.000 m behind the front; runs both ways between x = 1.000 m and 7.000 m`},
 		{"two equal after the first", moving.Train{Axles: []moving.Axle{{Load: 6e3}, {Load: 9e3, Spacing: 1.1}, {Load: 9e3, Spacing: 1.1}}},
-			"t: 6.000 kN –1.100 m– 9.000 kN –1.100 m– 9.000 kN; runs"},
+			`t: 6.000 kN –1.100 m– 9.000 kN –1.100 m– 9.000 kN; runs both ways between x = 0 m and 8.000 m`},
 		{"a run of forty", long,
-			"t: 20.00 kN then 40 times –0.2500 m– 5.000 kN –1.000 m– 20.00 kN; 42 axles over 11.00 m; runs"},
-	}
-	for _, tc := range tests {
-		got := describeTrain(&tc.train, "t", 20, units.SI)
-		if !strings.HasPrefix(got, tc.want) {
-			t.Errorf("%s: %q, want it to start %q", tc.name, got, tc.want)
+			`t: 20.00 kN then 40 times –0.2500 m– 5.000 kN –1.000 m– 20.00 kN; 42 axles over 11.00 m; runs both ways between x = 0 m and 8.000 m`},
+	} {
+		if got := describeTrain(&c.train, "t", 8, units.SI); got != c.want {
+			t.Errorf("%s: %q, want %q", c.name, got, c.want)
 		}
 	}
+}
+
+// A cantilever (fixed at 0, 4 m) under two axles acting down: its moment is
+// nowhere above zero (statics), so the train's largest moment, and the
+// finite element reading beside it, read 0, not the round-off of the
+// closed form ("9.095e-15 kN·m"); the smallest is −(10 kN·2.5 m + 20 kN·4
+// m) = −105 kN·m with the heavier axle at the tip.
+func TestTrainTextLeavesRoundOffOut(t *testing.T) {
+	const model = fileHead + `
+	"member": {"segments": [{"start": 0, "end": 4, "section": {"area": 0.004, "second_moment": 1.6e-5, "fibre_distance": 0.1},
+		"material": {"elastic_modulus": 2e11}}]},
+	"supports": [{"x": 0, "kind": "fixed"}],
+	"trains": [{"name": "t", "axles": [{"load": 10000}, {"load": 20000, "spacing": 1.5}], "step": 0.01}]}`
+	_, r := movingMoment(t, model, 1)
+	var b strings.Builder
+	WriteInfluenceText(&b, "cantilever", r, units.SI)
+	out := b.String()
+	if strings.Contains(out, "e-1") {
+		t.Errorf("round-off printed:\n%s", out)
+	}
+	i := strings.Index(out, "    bending moment ")
+	if i < 0 {
+		t.Fatalf("no bending moment row:\n%s", out)
+	}
+	rows := strings.SplitN(out[i:], "\n", 3)
+	if !strings.Contains(rows[0], "largest   0 kN·m at") || !strings.Contains(rows[0], "(finite elements 0 kN·m)") || !strings.Contains(rows[1], "smallest  -105.0 kN·m at x = 0 m") {
+		t.Errorf("bending moment rows:\n%s\n%s", rows[0], rows[1])
+	}
+}
+
+// movingMoment is the project of the file text model and the influence
+// line of its bending moment at x, with its trains' envelopes.
+func movingMoment(t *testing.T, model string, x float64) (*storage.Project, *MovingLoads) {
+	t.Helper()
+	p, err := storage.Unmarshal([]byte(model))
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := Influence(p, InfluenceRequest{Target: moving.Target{Quantity: fem.QBendingMoment, X: x}, Envelope: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return p, r
 }

@@ -283,3 +283,38 @@ func TestInfluenceCommandPictureAndSheet(t *testing.T) {
 		t.Errorf("a third train of two: exit %d, stderr %q", code, stderr)
 	}
 }
+
+// The shear force of the simply supported beam of span L = 4 m at x = 0,
+// 1 m and L, read on either side of x, per newton of a load acting down at
+// s: −s/L while the load stands left of the cut, 1 − s/L while it stands
+// right of it (statics; e.g. Hibbeler, Structural Analysis, ch. 6, from
+// memory). With the load at x itself the cut just right of x has it on its
+// left and the cut just left of x on its right: the exact sample there is
+// the same load as the finite element one, on the node at x (at a support
+// the load goes straight into it: 0).
+func TestInfluenceCommandShearAtItsOwnPoint(t *testing.T) {
+	const L = 4.0
+	for _, c := range []struct {
+		at, side string
+		x        float64
+	}{
+		{"1", "right", 1}, {"1", "left", 1}, {"0", "right", 0}, {"4", "left", L},
+	} {
+		t.Run(c.at+" "+c.side, func(t *testing.T) {
+			got := influenceRun(t, "../../testdata/simply_supported_uniform.json", "--quantity", "V", "--at", c.at, "--side", c.side, "--points", "8")
+			for _, s := range got.Line.Samples {
+				loadsLeft := s.S < c.x || (s.S == c.x && c.side == "right")
+				want := 1 - s.S/L
+				if loadsLeft {
+					want = -s.S / L
+				}
+				if math.Abs(s.Exact-want) > 1e-12 {
+					t.Errorf("exact line at s = %g: %.15g, want %g", s.S, s.Exact, want)
+				}
+				if s.FE == nil || *s.FEAt != s.S || math.Abs(*s.FE-want) > 1e-12 {
+					t.Errorf("finite element line at s = %g: %v with the load at %v, want %g at %g", s.S, s.FE, s.FEAt, want, s.S)
+				}
+			}
+		})
+	}
+}

@@ -3,6 +3,8 @@ package analysis
 import (
 	"fmt"
 	"math"
+	"slices"
+	"strconv"
 	"strings"
 	"sync"
 
@@ -254,6 +256,11 @@ func (c *Cases) finish(a *Analysis, opts check.Options) {
 	if c.Show.Kind != ShowEnvelope || len(c.Summaries) != len(c.Combinations) {
 		return
 	}
+	words := make([][]string, len(per))
+	for k := range per {
+		per[k] = slices.Clone(per[k])
+		words[k] = c.patterned(a, k, per[k], opts)
+	}
 	a.Checks, c.Governing = nil, nil
 	for i, r := range per[0] {
 		best, by := r, 0
@@ -265,10 +272,199 @@ func (c *Cases) finish(a *Analysis, opts check.Options) {
 				best, by = per[k][i], k
 			}
 		}
-		best.Name += " (governing: " + c.Combinations[by].Name + ")"
+		governing := c.Combinations[by].Name
+		if i < len(words[by]) && words[by][i] != "" {
+			governing += ", " + words[by][i]
+		}
+		best.Name += " (governing: " + governing + ")"
 		a.Checks = append(a.Checks, best)
 		c.Governing = append(c.Governing, by)
 	}
+}
+
+// patternSteps bounds how often patterned moves to a check's new place.
+const patternSteps = 4
+
+// patterned makes the stress and deflection checks of combination k
+// (results, every span loaded) those of the worst arrangement of the
+// spans its cases placed by span load: with every span loaded the moment
+// over a support is not the largest (the two spans beside it loaded give
+// more), nor a span's deflection (it and every second span loaded). At the
+// check's place it loads the spans whose share pushes the checked value
+// further the way it goes there, solves and checks that arrangement, and
+// again from that check's place while the arrangement changes; a check
+// worse than before replaces it in results. It returns, per check, the
+// loaded spans in words ("imposed on spans 1, 3") where an arrangement
+// other than every span loaded gives the check, else "".
+func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check.Options) []string {
+	cs := c.Solutions
+	words := make([]string, len(results))
+	var all []int // the shares combination k takes
+	for j, f := range cs.Loads.Factors[k] {
+		if f != 0 {
+			all = append(all, j)
+		}
+	}
+	if len(all) == 0 {
+		return words
+	}
+	exact := cs.FixedExact != nil
+	fields := func(fixed bool, j int, x float64) fem.Fields {
+		switch {
+		case exact && fixed:
+			return cs.FixedExact[k].At(x, fem.Right)
+		case exact:
+			return cs.SharesExact[j].At(x, fem.Right)
+		case fixed:
+			return cs.Fixed[k].At(x, fem.Right)
+		}
+		return cs.Shares[j].At(x, fem.Right)
+	}
+	for i := range results {
+		r := results[i]
+		if r.Kind != check.Design || (r.Code != check.CodeStress && r.Code != check.CodeDeflection) {
+			continue
+		}
+		// value is the checked quantity of one load set at x: the
+		// deflection from the line through the span's ends (from its
+		// support on an overhang, as check measures it without
+		// settlements), or the stress in the bottom fibre (top when bottom
+		// is false).
+		from, to := r.Span[0], r.Span[1]
+		held := func(x float64) bool { return restrainsAcross(&a.Model, x) }
+		value := func(fixed bool, j int, x float64, bottom bool) float64 {
+			if r.Code == check.CodeDeflection {
+				w0, w1 := fields(fixed, j, from).Deflection, fields(fixed, j, to).Deflection
+				switch {
+				case !held(from):
+					w0 = w1
+				case !held(to):
+					w1 = w0
+				}
+				return fields(fixed, j, x).Deflection - w0 - (w1-w0)*(x-from)/(to-from)
+			}
+			f := fields(fixed, j, x)
+			if bottom {
+				return f.AxialStress + f.BendingStress
+			}
+			return f.AxialStress - f.BendingStress
+		}
+		on := all
+		best, bestOn := r, all
+		for range patternSteps {
+			x := r.X
+			total := func(bottom bool) float64 {
+				v := value(true, 0, x, bottom)
+				for _, j := range on {
+					v += cs.Loads.Factors[k][j] * value(false, j, x, bottom)
+				}
+				return v
+			}
+			bottom := math.Abs(total(true)) >= math.Abs(total(false))
+			sign := math.Copysign(1, total(bottom))
+			var next []int
+			for _, j := range all {
+				if sign*cs.Loads.Factors[k][j]*value(false, j, x, bottom) > 0 {
+					next = append(next, j)
+				}
+			}
+			if slices.Equal(next, on) {
+				break
+			}
+			on = next
+			got, ok := c.checkArrangement(a, k, on, r.Name, opts)
+			if !ok {
+				break
+			}
+			r = got
+			if worse(r, best) {
+				best, bestOn = r, on
+			}
+		}
+		if !slices.Equal(bestOn, all) {
+			results[i] = best
+			words[i] = c.arrangementWords(&a.Model, k, bestOn)
+		}
+	}
+	return words
+}
+
+// restrainsAcross says whether a support of m at x holds it rigidly
+// across, as the deflection checks' spans end at such supports.
+func restrainsAcross(m *fem.Model, x float64) bool {
+	tol := 1e-9 * m.Length()
+	return slices.ContainsFunc(m.Supports, func(s fem.Support) bool {
+		return math.Abs(s.X-x) <= tol && s.Kind.Restrains(fem.Transverse)
+	})
+}
+
+// checkArrangement solves combination k with the shares on loaded and its
+// other shares unloaded, and checks it: the check named name, and whether
+// it was found.
+func (c *Cases) checkArrangement(a *Analysis, k int, on []int, name string, opts check.Options) (check.Result, bool) {
+	cs := c.Solutions
+	sols, factors := []*fem.Solution{cs.Fixed[k]}, []float64{1}
+	var exacts []*fem.Exact
+	if cs.FixedExact != nil {
+		exacts = []*fem.Exact{cs.FixedExact[k]}
+	}
+	for _, j := range on {
+		sols, factors = append(sols, cs.Shares[j]), append(factors, cs.Loads.Factors[k][j])
+		if exacts != nil {
+			exacts = append(exacts, cs.SharesExact[j])
+		}
+	}
+	s, err := fem.CombineSolutions(sols, factors)
+	if err != nil {
+		return check.Result{}, false
+	}
+	var e *fem.Exact
+	if exacts != nil {
+		if e, err = fem.CombineExact(exacts, factors); err != nil {
+			return check.Result{}, false
+		}
+	}
+	z := fem.NewSummarizer(s, e)
+	p := check.NewProbe(&a.Model, s, e)
+	fem.Walk(s, e, z, p)
+	for _, r := range p.Results(z.Comparison(), opts) {
+		if r.Name == name {
+			return r, true
+		}
+	}
+	return check.Result{}, false
+}
+
+// arrangementWords names the loaded spans of the shares on, case by case
+// for the cases combination k places by span: "imposed on spans 1, 3";
+// "imposed on no span" for a case none of whose spans is loaded.
+func (c *Cases) arrangementWords(m *fem.Model, k int, on []int) string {
+	cl := c.Solutions.Loads
+	var cases []int
+	spans := map[int][]string{}
+	for j, sh := range cl.Shares {
+		if cl.Factors[k][j] == 0 {
+			continue
+		}
+		if !slices.Contains(cases, sh.Case) {
+			cases = append(cases, sh.Case)
+		}
+		if slices.Contains(on, j) {
+			spans[sh.Case] = append(spans[sh.Case], strconv.Itoa(sh.Span+1))
+		}
+	}
+	var parts []string
+	for _, lc := range cases {
+		switch n := spans[lc]; len(n) {
+		case 0:
+			parts = append(parts, m.LoadSetName(lc)+" on no span")
+		case 1:
+			parts = append(parts, m.LoadSetName(lc)+" on span "+n[0])
+		default:
+			parts = append(parts, m.LoadSetName(lc)+" on spans "+strings.Join(n, ", "))
+		}
+	}
+	return strings.Join(parts, "; ")
 }
 
 // shownCombination is the combination whose solution the analysis shows

@@ -2,7 +2,9 @@ package analysis
 
 import (
 	"context"
+	"math"
 	"reflect"
+	"strings"
 	"testing"
 
 	"stave/fem"
@@ -88,4 +90,81 @@ func TestCaseSummaryIsTheCaseAlone(t *testing.T) {
 			}
 		}
 	}
+}
+
+// The envelope's design checks take pattern loading: the shipped three
+// equal spans (L = 4 m, EI = 3.2 MN·m², permanent 6 kN/m, imposed 10 kN/m
+// placed by span), with an allowable stress of 240 MPa. Continuous-beam
+// coefficients, three equal spans (AISC Manual, beam diagrams, from
+// memory): the moment over the first inner support is −0.1·wL² with every
+// span loaded and −7/60·wL² with the two spans beside it loaded, so the
+// strength combination (1.35·6 + 1.5·10 on spans 1 and 2) gives −(0.1·8.1 +
+// 7/60·15 kN/m)·(4 m)² = −40.96 kN·m, 256 MPa on c/I = 0.1/1.6e-5, beyond
+// the 240 MPa allowed (every span loaded gives 231 MPa, within it). The end
+// span's deflection is 0.0069·wL⁴/EI with every span loaded and
+// 0.0099·wL⁴/EI with the end spans loaded (coefficients to two figures):
+// the serviceability combination, 6 kN/m on every span and 10 kN/m on
+// spans 1 and 3, gives about 3.31 + 7.92 = 11.23 mm, beyond span/360 =
+// 11.11 mm (every span loaded gives 8.81 mm, within it).
+func TestEnvelopeChecksTakePatternLoading(t *testing.T) {
+	m := load(t, "three_span_pattern.json")
+	m.Segments[0].Material.Allowable = 240e6
+	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions(), Show: Show{Kind: ShowEnvelope}})
+	if err != nil || a.Err != nil {
+		t.Fatalf("%v, %v", err, a.Err)
+	}
+	found := 0
+	for _, r := range a.Checks {
+		switch {
+		case r.Code == check.CodeStress:
+			found++
+			if math.Abs(r.Value-256e6) > 1e-9*256e6 || r.Status != check.Fail || !strings.Contains(r.Name, "strength") || !strings.Contains(r.Name, "imposed on spans 1, 2") && !strings.Contains(r.Name, "imposed on spans 2, 3") {
+				t.Errorf("%s: %s, %.9g Pa; want a failure at 256 MPa from strength with imposed on spans 1, 2 (or 2, 3)", r.Name, r.Status, r.Value)
+			}
+		case r.Code == check.CodeDeflection && r.Span == [2]float64{0, 4}:
+			found++
+			if math.Abs(r.Value-11.23e-3) > 5e-3*11.23e-3 || r.Status != check.Fail || !strings.Contains(r.Name, "serviceability, imposed on spans 1, 3") {
+				t.Errorf("%s: %s, %.9g m; want a failure at about 11.23 mm from serviceability with imposed on spans 1, 3", r.Name, r.Status, r.Value)
+			}
+		}
+	}
+	if found != 2 {
+		t.Errorf("found %d of the stress check and the first span's deflection check", found)
+	}
+}
+
+// An overhang's deflection check takes pattern loading too: a beam over
+// supports at 2 and 10 m with 2 m overhangs (EI = 3.2 MN·m²), permanent
+// 3 kN/m and imposed 10 kN/m placed by span, checked under 1.35·permanent
+// + 1.5·imposed. Its tip rises most with the imposed load on the middle
+// span alone (statics and the slope-deflection of a simple span, from
+// memory: the tip moves by a·θ, θ = wL³/(24EI) from the span's load less
+// (w·a²/2)·L/(2EI) from the overhangs' moments, less w·a⁴/(8EI) of the
+// overhang's own load): 15 kN/m on the span gives 2·15·8³/(24·3.2e3) m =
+// 0.2 m, 4.05 kN/m everywhere 2·(0.027 − 0.010125) − 0.00253125 =
+// 0.03121875 m; 0.23121875 m in all, where every span loaded gives less.
+func TestOverhangCheckTakesPatternLoading(t *testing.T) {
+	uniform := func(w float64) []fem.DistributedLoad {
+		return []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: w}, {X: 12, Intensity: w}}}}
+	}
+	m := fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 12, Section: fem.Section{Area: 0.004, SecondMoment: 1.6e-5, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: 2e11}}},
+		Supports:     []fem.Support{{X: 2, Kind: fem.Pinned}, {X: 10, Kind: fem.Roller}},
+		Cases:        []fem.LoadCase{{Name: "permanent", DistributedLoad: uniform(-3e3)}, {Name: "imposed", DistributedLoad: uniform(-10e3), BySpan: true}},
+		Combinations: []fem.Combination{{Name: "U", Kind: fem.Serviceability, Factors: []fem.CaseFactor{{Case: 0, Factor: 1.35}, {Case: 1, Factor: 1.5}}}},
+	}
+	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
+	if err != nil || a.Err != nil {
+		t.Fatalf("%v, %v", err, a.Err)
+	}
+	for _, r := range a.Checks {
+		if r.Code == check.CodeDeflection && r.Span == [2]float64{0, 2} {
+			if math.Abs(r.Value-0.23121875) > 1e-9 || !strings.Contains(r.Name, "imposed on span 2)") {
+				t.Errorf("%s: %.12g m, want 0.23121875 with imposed on span 2", r.Name, r.Value)
+			}
+			return
+		}
+	}
+	t.Error("no deflection check of the left overhang")
 }

@@ -538,13 +538,15 @@ func (in *Influence) peaks(s *sweeps, e *Envelope) []float64 {
 // stations); a smooth peak (the deflection) lies between stations, which
 // miss it by the curvature times the gap squared. From the worst station
 // Peak climbs: it tries the turn of the parabola through that station and
-// its neighbours, and the points under the axles of the governing position
-// and of its neighbours on either side, moves to the best of them while
-// that is worse still, and stops at the neighbouring stations. The moment under
-// one axle is a concave function of the position as long as no axle
-// passes a key point or the point itself, so the climb reaches the
-// largest moment of the classic rule (midspan halfway between the axle and
-// the resultant) on the positions of the step.
+// its neighbours (between the neighbouring stations), and the points under
+// the axles of the governing position and of its neighbours on either side
+// (wherever they stand: a step may be longer than the gap between
+// stations, and the peaks of two positions lie a step apart), and moves to
+// the best of them while that is worse still. The moment under one axle is
+// a concave function of the position as long as no axle passes a key point
+// or the point itself, so the climb reaches the largest moment of the
+// classic rule (midspan halfway between the axle and the resultant) on the
+// positions of the step.
 func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (Extreme, bool) {
 	n := len(e.Stations)
 	if n == 0 {
@@ -565,7 +567,7 @@ func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (
 	lo, hi := e.Stations[max(b-1, 0)]+tol, e.Stations[min(b+1, n-1)]-tol
 	x, pos, v := e.Stations[b], at[b], values[b]
 	for c := range maxClimb {
-		cands := e.underAxles(pos, lo, hi)
+		cands := e.underAxles(pos)
 		if c == 0 && b > 0 && b < n-1 {
 			if xv, ok := vertex(e.Stations[b-1:b+2], values[b-1:b+2]); ok && xv > lo && xv < hi {
 				cands = append(cands, xv)
@@ -608,9 +610,9 @@ func vertex(x, v []float64) (float64, bool) {
 	return 0.5*(x[0]+x[1]) - d1/(2*curvature), true
 }
 
-// underAxles are the points strictly between lo and hi under the axles of
-// position i and of the positions either side of it in its run, in order.
-func (e *Envelope) underAxles(i int32, lo, hi float64) []float64 {
+// underAxles are the points under the axles of position i and of the
+// positions either side of it in its run, in order.
+func (e *Envelope) underAxles(i int32) []float64 {
 	var out []float64
 	for _, r := range e.runs {
 		k := int(i - r.first)
@@ -619,9 +621,7 @@ func (e *Envelope) underAxles(i int32, lo, hi float64) []float64 {
 		}
 		for j := max(k-1, 0); j <= min(k+1, r.n-1); j++ {
 			for _, ax := range r.axles {
-				if x := r.front(j) + ax.offset; x > lo && x < hi {
-					out = append(out, x)
-				}
+				out = append(out, r.front(j)+ax.offset)
 			}
 		}
 	}

@@ -153,3 +153,100 @@ func TestPiecesGiveTheLine(t *testing.T) {
 		}
 	}
 }
+
+// Influence lines of a beam with overhangs, a cantilever and two equal
+// continuous spans, per newton of a load acting down at s, against statics
+// and the three-moment equation (from memory; e.g. Hibbeler, Structural
+// Analysis, ch. 6 and 10):
+//
+//   - overhangs, supports at 2 and 10 on 12 m: R_A = (10 − s)/8 over the
+//     whole member (above 1 on the left overhang, below 0 on the right);
+//     M(6) = 4·R_A less (6 − s) for a load left of 6; on the left
+//     overhang M(1) = −(1 − s) for s < 1, 0 beyond; V(11) = +1 for a load
+//     beyond 11, 0 before it.
+//   - cantilever fixed at 0, 4 m: the support's moment reaction s
+//     (counter-clockwise), M(1.5) = −(s − 1.5) beyond 1.5, V(1.5) = +1
+//     beyond it.
+//   - two spans L = 5 m: the three-moment equation with a load at a in the
+//     first span, 2·M_B·(2L) = −a·(L − a)·(L + a)/L, gives M_B =
+//     −a·(L² − a²)/(4L²), mirrored for the second span; R_A = (L − a)/L +
+//     M_B/L in the first span and M_B/L in the second; M(2) = 2·R_A less
+//     (2 − a) for a load left of 2; V just right of B = −R_C, plus 1 for a
+//     load beyond B, with R_C = M_B/L for a load in the first span and
+//     (a − L)/L + M_B/L in the second.
+func TestOverhangCantileverAndTwoSpanInfluenceLines(t *testing.T) {
+	pinned := func(x float64) fem.Support { return fem.Support{X: x, Kind: fem.Pinned} }
+	roller := func(x float64) fem.Support { return fem.Support{X: x, Kind: fem.Roller} }
+	overhangs := beam(12, pinned(2), roller(10))
+	cantilever := beam(4, fem.Support{X: 0, Kind: fem.Fixed})
+	const L = 5.0
+	twoSpans := beam(2*L, pinned(0), roller(L), roller(2*L))
+	mB := func(a float64) float64 {
+		u := min(a, 2*L-a)
+		return -u * (L*L - u*u) / (4 * L * L)
+	}
+	rA := func(a float64) float64 {
+		if a <= L {
+			return (L-a)/L + mB(a)/L
+		}
+		return mB(a) / L
+	}
+	rC := func(a float64) float64 {
+		if a >= L {
+			return (a-L)/L + mB(a)/L
+		}
+		return mB(a) / L
+	}
+	left := func(a, x float64) float64 { // a load at a, left of x, in the moment at x
+		if a < x {
+			return x - a
+		}
+		return 0
+	}
+	for _, c := range []struct {
+		name   string
+		m      *fem.Model
+		target Target
+		want   func(s float64) float64
+	}{
+		{"overhangs, R_A", overhangs, Target{Reaction: true, Support: 0, Motion: fem.Transverse}, func(s float64) float64 { return (10 - s) / 8 }},
+		{"overhangs, M(6)", overhangs, Target{Quantity: fem.QBendingMoment, X: 6}, func(s float64) float64 { return 4*(10-s)/8 - left(s, 6) }},
+		{"overhangs, M(1)", overhangs, Target{Quantity: fem.QBendingMoment, X: 1}, func(s float64) float64 { return -left(s, 1) }},
+		{"overhangs, V(11)", overhangs, Target{Quantity: fem.QShearForce, X: 11}, func(s float64) float64 {
+			if s > 11 {
+				return 1
+			}
+			return 0
+		}},
+		{"cantilever, moment reaction", cantilever, Target{Reaction: true, Support: 0, Motion: fem.Rotation}, func(s float64) float64 { return s }},
+		{"cantilever, M(1.5)", cantilever, Target{Quantity: fem.QBendingMoment, X: 1.5}, func(s float64) float64 { return -max(s-1.5, 0) }},
+		{"cantilever, V(1.5)", cantilever, Target{Quantity: fem.QShearForce, X: 1.5}, func(s float64) float64 {
+			if s > 1.5 {
+				return 1
+			}
+			return 0
+		}},
+		{"two spans, M_B", twoSpans, Target{Quantity: fem.QBendingMoment, X: L}, mB},
+		{"two spans, M(2)", twoSpans, Target{Quantity: fem.QBendingMoment, X: 2}, func(a float64) float64 { return 2*rA(a) - left(a, 2) }},
+		{"two spans, V just right of B", twoSpans, Target{Quantity: fem.QShearForce, X: L, Side: fem.Right}, func(a float64) float64 {
+			if a > L {
+				return 1 - rC(a) // the load beyond the cut
+			}
+			return -rC(a)
+		}},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			l := line(t, influence(t, c.m), c.target)
+			length := c.m.Length()
+			for i := 0; i <= 48; i++ {
+				s := length * float64(i) / 48
+				if !c.target.Reaction && s == c.target.X {
+					continue // the line jumps or turns there: its own tests
+				}
+				if got, want := l.At(s, fem.Right), c.want(s); math.Abs(got-want) > 1e-12*length {
+					t.Errorf("load at %g: got %.15g, want %.15g", s, got, want)
+				}
+			}
+		})
+	}
+}

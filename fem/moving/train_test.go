@@ -369,3 +369,63 @@ func TestWorstBetweenDefaultStations(t *testing.T) {
 		}
 	}
 }
+
+// The largest moment of a train over every position when the step is
+// coarser than the stations: each position's moment peaks under one of its
+// axles, and the peaks of neighbouring positions lie a step apart, further
+// than the stations next to the worst one. Simple beam; the moment under an
+// axle at x with the resultant W a distance e beyond it is W·(L − x − e)·x/L
+// less the moment of the loads behind it, a parabola in the position whose
+// top (x = L/2 − e/2, the classic rule) gives the absolute largest moment;
+// on the train's positions the nearest one to that top gives the largest.
+// Source: absolute maximum moment under moving concentrated loads,
+// Hibbeler, Structural Analysis, ch. 6, from memory; values by statics.
+func TestWorstMomentOnACoarseStep(t *testing.T) {
+	// Three axles 50, 100 and 100 kN, 2 m and 3 m apart on 12 m: the
+	// resultant 250 kN stands 2.8 m behind the front, 0.8 m beyond the
+	// middle axle, which the rule puts at x = 6.4 m (front at 8.4 m, a
+	// position of the 0.1 m step): R_A = 250 kN·(12 − 5.6)/12 and
+	// M = R_A·6.4 m − 100 kN·3 m = 553.333 kN·m.
+	three := []Axle{{Load: 50e3}, {Load: 100e3, Spacing: 2}, {Load: 100e3, Spacing: 3}}
+	// Two axles 80 and 40 kN, 1.3 m apart, backward from x = 1.1 m to 9.3
+	// m on 10 m: the resultant 120 kN stands 0.4333 m behind the 80 kN
+	// front, which the rule puts at 4.7833 m; the step 0.07 m is shortened
+	// to 6.9/99 m so that 100 positions fill the 6.9 m the front moves,
+	// and the nearest, front = 1.1 + 53·6.9/99 m, gives M = 120 kN·(10 −
+	// 0.4333 − f)·f/10.
+	const f = 1.1 + 53*6.9/99
+	two := Train{Axles: []Axle{{Load: 80e3}, {Load: 40e3, Spacing: 1.3}}, From: 1.1, To: 9.3, Step: 0.07, Direction: Backward}
+	for _, c := range []struct {
+		name   string
+		L      float64
+		train  Train
+		want   float64
+		at     []float64 // the places that give it (mirror images)
+		fronts []float64
+	}{
+		{"three axles, classic position on the 0.1 m step", 12, Train{Axles: three, Step: 0.1},
+			250e3*(12-5.6)/12*6.4 - 100e3*3, []float64{6.4, 5.6}, []float64{8.4, 3.6}},
+		{"two axles backward on part of the member, 0.07 m step", 10, two,
+			120e3 * (10 - 1.3/3 - f) * f / 10, []float64{f}, []float64{f}},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			m := beam(c.L, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: c.L, Kind: fem.Roller})
+			p, in := prepared(t, m)
+			e, err := in.Envelope(&c.train, p.Mesh(), nil)
+			if err != nil {
+				t.Fatal(err)
+			}
+			hi, _ := e.Worst(fem.QBendingMoment)
+			if !near(hi.Value, c.want, 1e-12) {
+				t.Errorf("largest moment %.12g N·m, want %.12g", hi.Value, c.want)
+			}
+			ok := false
+			for i := range c.at {
+				ok = ok || (near(hi.X, c.at[i], 1e-9) && near(hi.Placement.Front, c.fronts[i], 1e-9))
+			}
+			if !ok {
+				t.Errorf("at x = %.9g with the front at %.9g; want x in %v with the front in %v", hi.X, hi.Placement.Front, c.at, c.fronts)
+			}
+		})
+	}
+}
