@@ -251,6 +251,35 @@ func TestPartialFoundationConverges(t *testing.T) {
 	}
 }
 
+// A point load P a millimetre or a centimetre beyond a hinge on a long
+// beam on an elastic foundation, on a mesh of 100 elements: every node on a
+// foundation enters the factorized equations, and the short element, pinned
+// at the hinge, leaves a pivot block of rank one there. The ground must
+// still carry P to round-off (statics: nothing else holds the member
+// across), wherever the hinge lies along the member; the node-block kernel
+// of package band missed it by 0.14 % (the FE equilibrium check failed) when
+// the elimination met that block from the far end.
+func TestShortStretchBeyondAHingeOnAFoundation(t *testing.T) {
+	const L, k, P = 100.0, 6.4e6, -1e5
+	for _, c := range []struct{ hinge, beyond float64 }{
+		{20, 1e-3}, {50, 1e-3}, {70, 1e-3}, {49.5, 1e-3}, {70, 1e-2},
+	} {
+		m := groundModel(L, k)
+		m.Supports[0].X = c.hinge
+		m.Hinges = []Hinge{{X: c.hinge}}
+		m.PointLoads = []PointLoad{{X: c.hinge + c.beyond, Transverse: P}}
+		m.Mesh = MeshSettings{Elements: 100}
+		s := mustSolve(t, m)
+		tol := max(1e-9, 4*s.Condition*0x1p-52)
+		if r := s.Equilibrium.Residual; math.Abs(r[1]) > tol*math.Abs(P) || math.Abs(r[2]) > tol*math.Abs(P)*L {
+			t.Errorf("hinge at x = %g m, load %g m beyond: equilibrium residual %v, beyond %.3g of the load", c.hinge, c.beyond, r, tol)
+		}
+		if g := s.Foundations[0].Force[1]; relErr(g, -P) > tol {
+			t.Errorf("hinge at x = %g m, load %g m beyond: the ground carries %.10g N, want %.10g", c.hinge, c.beyond, g, -P)
+		}
+	}
+}
+
 // Every foundation input that makes no sense is refused where it lies.
 func TestValidateFoundations(t *testing.T) {
 	ground := func(f Foundation) func(m *Model) {
