@@ -342,7 +342,11 @@ func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 	// The ground's resultant, at its line of action, and the stretch it
 	// is spread over where a support has its moment.
 	for _, g := range sum.Foundations {
-		cols := []string{fmt.Sprintf("foundation %d (ground)", g.Foundation), f(units.Position, g.Reaction.Centre()), "—", "—",
+		at := "a couple"
+		if centre, _, ok := g.Centre(); ok {
+			at = f(units.Position, centre)
+		}
+		cols := []string{fmt.Sprintf("foundation %d (ground)", g.Foundation), at, "—", "—",
 			"spread over " + f(units.Position, g.Start) + " to " + f(units.Position, g.End)}
 		if g.Holds[fem.Axial] {
 			cols[2] = value(units.Force, g.Reaction.Force[0], g.FE.Force[0])

@@ -280,6 +280,47 @@ func TestShortStretchBeyondAHingeOnAFoundation(t *testing.T) {
 	}
 }
 
+// Where the ground carries its resultant across, read in the summary: under
+// a point load on a long beam (statics: the ground returns the load, so its
+// resultant acts under it), and nowhere where the ground's forces add up to
+// a couple alone: a free beam on a foundation turned by a moment C at its
+// end, or pushed down and up by ±P a distance d apart, has the ground
+// return −C or P·d as a couple (statics: no force across, moments
+// balanced). Its line of action was M/F with F round-off, 1.2e31 m.
+func TestWhereTheGroundActs(t *testing.T) {
+	const L, k = 40.0, 6.4e6
+	for _, c := range []struct {
+		name   string
+		loads  []PointLoad
+		couple float64 // N·m the ground returns as a couple; 0: a force at centre
+		centre float64 // m
+	}{
+		{"point load mid-member", []PointLoad{{X: 17, Transverse: -1e5}}, 0, 17},
+		{"moment at the end", []PointLoad{{X: 0, Moment: 3e4}}, -3e4, 0},
+		{"equal and opposite loads", []PointLoad{{X: 15, Transverse: -1e5}, {X: 25, Transverse: 1e5}}, -1e6, 0},
+	} {
+		m := groundModel(L, k)
+		m.PointLoads = c.loads
+		m.Mesh = MeshSettings{Elements: 160}
+		s := mustSolve(t, m)
+		e, err := SolveExact(m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		g := Summarize(s, e).Foundations[0]
+		centre, fe, ok := g.Centre()
+		if c.couple != 0 {
+			if ok || relErr(g.Reaction.Moment, c.couple) > 1e-9 {
+				t.Errorf("%s: the ground acts at %g m (FE %g m) with %g N·m; want a couple of %g N·m, acting nowhere", c.name, centre, fe, g.Reaction.Moment, c.couple)
+			}
+			continue
+		}
+		if !ok || relErr(centre, c.centre) > 1e-9 || relErr(fe, c.centre) > 1e-6 {
+			t.Errorf("%s: the ground acts at %g m (FE %g m, found %v); want %g m", c.name, centre, fe, ok, c.centre)
+		}
+	}
+}
+
 // Every foundation input that makes no sense is refused where it lies.
 func TestValidateFoundations(t *testing.T) {
 	ground := func(f Foundation) func(m *Model) {

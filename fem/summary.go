@@ -84,6 +84,26 @@ type FoundationSummary struct {
 	// member (it has an axial modulus), [1] across it (a modulus).
 	Holds        [2]bool
 	Reaction, FE FoundationReaction
+	// nothingAcross says the ground's forces across add up to nothing, to
+	// the round-off of the model's forces (Solution.EquilibriumScales), and
+	// couple that they make a couple (Reaction.Moment), which has no line
+	// of action.
+	nothingAcross, couple bool
+}
+
+// Centre is where the ground's resultant across the member acts, m, in the
+// headline solution and in the finite element one (FoundationReaction.Centre),
+// the middle of the foundation where it carries nothing across; ok is false
+// where the ground carries a couple alone, which acts nowhere in particular.
+func (f FoundationSummary) Centre() (headline, fe float64, ok bool) {
+	if f.couple {
+		return math.NaN(), math.NaN(), false
+	}
+	if f.nothingAcross {
+		mid := 0.5 * (f.Start + f.End)
+		return mid, mid, true
+	}
+	return f.Reaction.Centre(), f.FE.Centre(), true
 }
 
 // SupportActions are the shear force and the bending moment just left ([0])
@@ -553,9 +573,14 @@ func foundationSummaries(s *Solution, e *Exact) []FoundationSummary {
 		return nil
 	}
 	var exact []FoundationReaction
+	// The headline's round-off: the exact solution's own, or the FE's.
+	condition := s.Condition
 	if e != nil {
 		exact = e.Foundations()
+		condition = e.Condition
 	}
+	force, _ := s.EquilibriumScales(e)
+	negligible := force * max(1e-9, 4*condition*0x1p-52)
 	out := make([]FoundationSummary, len(s.Foundations))
 	for i, r := range s.Foundations {
 		f := s.Model.Foundations[r.Foundation]
@@ -564,6 +589,9 @@ func foundationSummaries(s *Solution, e *Exact) []FoundationSummary {
 		if i < len(exact) {
 			out[i].Reaction = exact[i]
 		}
+		g := out[i].Reaction
+		out[i].nothingAcross = math.Abs(g.Force[1]) <= negligible
+		out[i].couple = out[i].nothingAcross && math.Abs(g.Moment) > negligible*s.Model.Length()
 	}
 	return out
 }
