@@ -311,3 +311,52 @@ func TestNearSingularModelIsUnreliable(t *testing.T) {
 		}
 	}
 }
+
+// A temperature load on a segment without a coefficient of thermal
+// expansion does nothing (N = −EA·α·ΔT = 0 in a bar held at both ends):
+// the findings say so, for a uniform change at the top level or in a case
+// and for a temperature difference through the depth, and only for the
+// segments that lack α.
+func TestTemperatureWithoutExpansion(t *testing.T) {
+	segment := func(start, end, alpha, difference float64) fem.Segment {
+		return fem.Segment{Start: start, End: end, TemperatureDifference: difference,
+			Section:  fem.Section{Area: 0.01, SecondMoment: 1e-4, FibreDistance: 0.15},
+			Material: fem.Material{Elastic: 210e9, ThermalExpansion: alpha}}
+	}
+	held := []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 6, Kind: fem.Fixed}}
+	for _, c := range []struct {
+		name string
+		m    fem.Model
+		want []string // the names of the findings of code material
+	}{
+		{"warmed, no α", fem.Model{Segments: []fem.Segment{segment(0, 6, 0, 0)}, Supports: held, TemperatureChange: 30},
+			[]string{"thermal expansion of segment 1"}},
+		{"warmed, with α", fem.Model{Segments: []fem.Segment{segment(0, 6, 12e-6, 0)}, Supports: held, TemperatureChange: 30}, nil},
+		{"a difference on the segment without α", fem.Model{Segments: []fem.Segment{segment(0, 3, 12e-6, 0), segment(3, 6, 0, 20)}, Supports: held},
+			[]string{"thermal expansion of segment 2"}},
+		{"no temperature load, no α", fem.Model{Segments: []fem.Segment{segment(0, 6, 0, 0)}, Supports: held,
+			PointLoads: []fem.PointLoad{{X: 3, Transverse: -1e4}}}, nil},
+		{"warmed in a load case", fem.Model{Segments: []fem.Segment{segment(0, 3, 0, 0), segment(3, 6, 0, 0)}, Supports: held,
+			Cases: []fem.LoadCase{{Name: "summer", TemperatureChange: 25}}},
+			[]string{"thermal expansion of segment 1", "thermal expansion of segment 2"}},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			a, err := Run(context.Background(), Request{Model: c.m, Checks: check.DefaultOptions()})
+			if err != nil {
+				t.Fatal(err)
+			}
+			var got []string
+			for _, f := range a.Findings() {
+				if f.Code == CodeMaterial {
+					got = append(got, f.Name)
+					if f.Severity != Caution || !strings.Contains(f.Message, "does nothing to it") {
+						t.Errorf("finding %q: severity %v, message %q", f.Name, f.Severity, f.Message)
+					}
+				}
+			}
+			if !slices.Equal(got, c.want) {
+				t.Errorf("findings of code material %q, want %q", got, c.want)
+			}
+		})
+	}
+}

@@ -104,6 +104,7 @@ func (a *Analysis) Findings() []Finding {
 			}
 		}
 	}
+	out = append(out, thermalFindings(&a.Model)...)
 	if a.Solution == nil {
 		return out
 	}
@@ -135,6 +136,37 @@ func (a *Analysis) Findings() []Finding {
 		out = append(out, f)
 	}
 	return append(out, a.checkFindings()...)
+}
+
+// thermalFindings are the cautions that a temperature load acts on a
+// segment with no coefficient of thermal expansion, where it does nothing:
+// most likely α was left out, since every structural material expands.
+func thermalFindings(m *fem.Model) []Finding {
+	change := m.TemperatureChange != 0
+	for _, c := range m.Cases {
+		change = change || c.TemperatureChange != 0
+	}
+	var out []Finding
+	for i, s := range m.Segments {
+		if s.Material.ThermalExpansion != 0 {
+			continue
+		}
+		var loads []string
+		if change {
+			loads = append(loads, "the temperature change")
+		}
+		if s.TemperatureDifference != 0 {
+			loads = append(loads, fmt.Sprintf("its temperature difference of %s K through the depth", units.FormatNumber(s.TemperatureDifference)))
+		}
+		if len(loads) == 0 {
+			continue
+		}
+		f := finding(CodeMaterial, fmt.Sprintf("thermal expansion of segment %d", i+1),
+			fmt.Sprintf("Segment %d has no coefficient of thermal expansion α, so %s does nothing to it: enter α (typical values: steel 12e-6 /K, concrete 10e-6 /K, aluminium 23.6e-6 /K), or remove the temperature load.", i+1, strings.Join(loads, " and ")))
+		f.Span = [2]float64{s.Start, s.End}
+		out = append(out, f)
+	}
+	return out
 }
 
 // coarseMesh is the finding that the finite element extremes are further
