@@ -189,3 +189,63 @@ func TestTemperatureDifferenceInLoadCases(t *testing.T) {
 		}
 	}
 }
+
+// A combination takes a case's temperature difference with the case's
+// factor, as it takes the case's loads. A beam fixed at both ends with a
+// central load P in one case and the temperature difference in another:
+// the combination 1.35·imposed + 1.5·sun has the left end's reaction
+// moment 1.35·P·L/8 + 1.5·EI·κ and the end reactions 1.35·P/2 (the
+// temperature difference of a fixed-ended beam bends it by end moments
+// alone, M = −EI·κ; Roark's, thermal bending of beams; P·L/8 and P/2 from
+// the AISC beam diagrams; from memory). The combinations' loads left the
+// temperature difference out, so the combination had the imposed case's
+// moment alone.
+func TestTemperatureDifferenceInCombinations(t *testing.T) {
+	const L, dT, depth, P = 6.0, 30.0, 0.3, -1e3
+	ei := testE * testI
+	kappa := testα * dT / depth
+	seg := testSegment(0, L)
+	seg.Section.Depth, seg.TemperatureDifference = depth, dT
+	m := &Model{
+		Segments: []Segment{seg},
+		Supports: []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Fixed}},
+		Cases: []LoadCase{
+			{Name: "imposed", PointLoads: []PointLoad{{X: L / 2, Transverse: P}}},
+			{Name: "sun", ThermalGradient: true},
+		},
+		Combinations: []Combination{{Name: "ULS", Kind: Strength, Factors: []CaseFactor{{Case: 0, Factor: 1.35}, {Case: 1, Factor: 1.5}}}},
+		Mesh:         MeshSettings{Elements: 8},
+	}
+	p, err := Prepare(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	cs, err := p.SolveCombinations(p.Mesh())
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := cs.SolveExact(p); err != nil {
+		t.Fatal(err)
+	}
+	fe, err := cs.Solution(0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	ex, err := cs.Exact(0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	wantMoment, wantShear := -1.35*P*L/8+1.5*ei*kappa, -1.35*P/2
+	for name, rs := range map[string][]Reaction{"FE": fe.Reactions, "exact": ex.Reactions()} {
+		if got := rs[0].Force[Rotation]; relErr(got, wantMoment) > 1e-9 {
+			t.Errorf("%s: left end moment %.9g, want %.9g", name, got, wantMoment)
+		}
+		if got := rs[0].Force[Transverse]; relErr(got, wantShear) > 1e-9 {
+			t.Errorf("%s: left end reaction %.9g, want %.9g", name, got, wantShear)
+		}
+	}
+	// The moment at midspan: 1.35·P·L/8 sagging less 1.5·EI·κ.
+	if got, want := ex.At(L/2, Right).BendingMoment, -1.35*P*L/8-1.5*ei*kappa; relErr(got, want) > 1e-9 {
+		t.Errorf("exact midspan moment %.9g, want %.9g", got, want)
+	}
+}
