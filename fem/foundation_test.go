@@ -81,6 +81,117 @@ func TestLongBeamOnFoundationPointLoad(t *testing.T) {
 	}
 }
 
+// More of Hetényi's closed forms (Beams on Elastic Foundation, 1946; also
+// Roark's Formulas for Stress and Strain, beams on elastic foundations;
+// from memory), β = (k/4EI)^¼:
+//   - a free beam of length L with a central load P: under it
+//     w = −Pβ/(2k)·(cosh βL + cos βL + 2)/(sinh βL + sin βL) and
+//     M = P/(4β)·(cosh βL − cos βL)/(sinh βL + sin βL), from nearly rigid
+//     (βL = 0.3, w → −P/(kL), M → PL/8) to long (βL = 6), across both bases
+//     of the exact solution (series up to λ = 2 per stretch, decaying beyond);
+//   - a semi-infinite beam (βL = 34) under a load P at its free end:
+//     w(0) = −2Pβ/k, θ(0) = 2Pβ²/k; under a counter-clockwise moment C
+//     there: w(0) = −2Cβ²/k, θ(0) = 4Cβ³/k;
+//   - a foundation under part of the member: the same beam with an
+//     overhang c off the foundation, loaded at its tip: the overhang hands
+//     the beam P and P·c, and the tip sinks by w(c) − θ(c)·c − Pc³/(3EI);
+//   - foundations with supports: a long beam held across at its middle
+//     and loaded at a from there takes R = −P·e^(−βa)·(cos βa + sin βa) at
+//     the support (the load's deflection there cancelled by R's); the same
+//     support settling by Δ with no load takes R = 2kΔ/β, and the moment
+//     over it is −R/(4β).
+func TestHetenyiClosedForms(t *testing.T) {
+	const k, P, C, c, a, settle = 6.4e6, -8e4, 3e4, 2.0, 2.0, -5e-3
+	ei := testE * testI
+	beta := math.Sqrt(math.Sqrt(k / (4 * ei)))
+	type want struct {
+		what      string
+		got, want float64
+	}
+	type row struct {
+		name  string
+		model func() *Model
+		check func(e *Exact) []want
+	}
+	var rows []row
+	for _, bl := range []float64{0.3, 1.5, 3, 6} {
+		L := bl / beta
+		rows = append(rows, row{fmt.Sprintf("free beam, βL = %g, central load", bl), func() *Model {
+			m := groundModel(L, k)
+			m.PointLoads = []PointLoad{{X: L / 2, Transverse: P}}
+			return m
+		}, func(e *Exact) []want {
+			f := e.At(L/2, Right)
+			d := math.Sinh(bl) + math.Sin(bl)
+			return []want{{"w under the load", f.Deflection, P * beta / (2 * k) * (math.Cosh(bl) + math.Cos(bl) + 2) / d},
+				{"M under the load", f.BendingMoment, -P / (4 * beta) * (math.Cosh(bl) - math.Cos(bl)) / d}}
+		}})
+	}
+	long := 34 / beta
+	rows = append(rows, []row{
+		{"semi-infinite beam, load at its end", func() *Model {
+			m := groundModel(long, k)
+			m.PointLoads = []PointLoad{{X: 0, Transverse: P}}
+			return m
+		}, func(e *Exact) []want {
+			f := e.At(0, Right)
+			return []want{{"w(0)", f.Deflection, 2 * P * beta / k}, {"θ(0)", f.Rotation, -2 * P * beta * beta / k}}
+		}},
+		{"semi-infinite beam, moment at its end", func() *Model {
+			m := groundModel(long, k)
+			m.PointLoads = []PointLoad{{X: 0, Moment: C}}
+			return m
+		}, func(e *Exact) []want {
+			f := e.At(0, Right)
+			return []want{{"w(0)", f.Deflection, -2 * C * beta * beta / k}, {"θ(0)", f.Rotation, 4 * C * beta * beta * beta / k}}
+		}},
+		{"overhang off the foundation, load at its tip", func() *Model {
+			m := groundModel(c+long, k)
+			m.Foundations[0].Start = c
+			m.PointLoads = []PointLoad{{X: 0, Transverse: P}}
+			return m
+		}, func(e *Exact) []want {
+			// At the foundation's start the overhang hands the beam P down
+			// and the moment −P·c counter-clockwise (P < 0 is down).
+			wc := 2*P*beta/k + 2*P*c*beta*beta/k
+			tc := -2*P*beta*beta/k - 4*P*c*beta*beta*beta/k
+			return []want{{"w at the foundation's start", e.At(c, Right).Deflection, wc},
+				{"w at the tip", e.At(0, Right).Deflection, wc - tc*c + P*c*c*c/(3*ei)}}
+		}},
+		{"support at the middle, load beside it", func() *Model {
+			m := groundModel(long, k)
+			m.Supports[0].Kind = Pinned
+			m.PointLoads = []PointLoad{{X: long/2 + a, Transverse: P}}
+			return m
+		}, func(e *Exact) []want {
+			return []want{{"support's reaction", e.Reactions()[0].Force[Transverse], -P * math.Exp(-beta*a) * (math.Cos(beta*a) + math.Sin(beta*a))},
+				{"ground's resultant", e.Foundations()[0].Force[Transverse], -P * (1 - math.Exp(-beta*a)*(math.Cos(beta*a)+math.Sin(beta*a)))}}
+		}},
+		{"support at the middle settling", func() *Model {
+			m := groundModel(long, k)
+			m.Supports[0].Kind = Pinned
+			m.Supports[0].Settlement[Transverse] = settle
+			return m
+		}, func(e *Exact) []want {
+			r := 2 * k * settle / beta // down, pulling the beam with it
+			return []want{{"support's reaction", e.Reactions()[0].Force[Transverse], r}, {"M over it", e.At(long/2, Right).BendingMoment, -r / (4 * beta)}}
+		}},
+	}...)
+	for _, r := range rows {
+		t.Run(r.name, func(t *testing.T) {
+			e, err := SolveExact(r.model())
+			if err != nil {
+				t.Fatal(err)
+			}
+			for _, w := range r.check(e) {
+				if relErr(w.got, w.want) > 1e-9 {
+					t.Errorf("%s %.12g, want %.12g", w.what, w.got, w.want)
+				}
+			}
+		})
+	}
+}
+
 // A free beam of any length on an elastic foundation under a uniform load q
 // settles uniformly by q/k and does not bend (Hetényi, 1946, from memory:
 // the foundation's pressure matches the load point by point). The
