@@ -215,18 +215,42 @@ func (sh *sheet) modelTable(m *fem.Model) {
 	if m.AxialOnly {
 		rows = append(rows, [2]string{"member", "tie or strut: axial force only, bending not solved"})
 	}
+	heated := m.TemperatureChange != 0
+	for _, c := range m.Cases {
+		heated = heated || c.TemperatureChange != 0
+	}
 	for i, s := range m.Segments {
 		rows = append(rows, [2]string{fmt.Sprintf("segment %d", i+1), fmt.Sprintf("%s to %s; A %s, I %s, c %s; E %s %s",
 			f(units.Position, s.Start), f(units.Position, s.End), f(units.Area, s.Section.Area),
 			f(units.SecondMoment, s.Section.SecondMoment), f(units.Dimension, s.Section.FibreDistance),
 			f(units.Modulus, s.Material.Elastic), s.Material.Name)})
-		// What else the segment models, on a line of its own so the row fits.
+		// What else the segment models, on a line of its own so the row fits,
+		// with the inputs that result from it: α where a temperature acts,
+		// the depth and the shear properties as the file gives them.
 		var also []string
+		if s.TemperatureDifference != 0 || heated {
+			also = append(also, "α "+f(units.ThermalExpansion, s.Material.ThermalExpansion))
+		}
 		if s.TemperatureDifference != 0 {
-			also = append(also, "bottom fibre warmer than the top by "+f(units.TemperatureChange, s.TemperatureDifference))
+			d := "bottom fibre warmer than the top by " + f(units.TemperatureChange, s.TemperatureDifference)
+			if s.Section.Depth > 0 {
+				d += " over a depth of " + f(units.Dimension, s.Section.Depth)
+			}
+			also = append(also, d)
 		}
 		if s.ShearDeformation {
-			also = append(also, "shear deformation (Timoshenko beam)")
+			d := "shear deformation (Timoshenko beam), "
+			if s.Section.ShearArea > 0 {
+				d += "As " + f(units.Area, s.Section.ShearArea)
+			} else {
+				d += "κ " + units.FormatNumber(s.Section.ShearCoefficient)
+			}
+			if s.Material.ShearModulus > 0 {
+				d += ", G " + f(units.Modulus, s.Material.ShearModulus)
+			} else {
+				d += ", ν " + units.FormatNumber(s.Material.Poisson)
+			}
+			also = append(also, d)
 		}
 		if len(also) > 0 {
 			rows = append(rows, [2]string{"", strings.Join(also, "; ")})

@@ -53,7 +53,7 @@ func TestSheetShowsGroundAndHinges(t *testing.T) {
 		t.Fatalf("the ground carries %g N at %g m: want up to the 100 kN load, on the foundation", g.Reaction.Force[1], g.Reaction.Centre())
 	}
 	for _, want := range []string{
-		"bottom fibre warmer than the top by 20.00 K; shear deformation (Timoshenko beam)",
+		"α 1.200e-05 1/K; bottom fibre warmer than the top by 20.00 K; shear deformation (Timoshenko beam), κ 0.4000, ν 0.3000",
 		"at 3.000 m: rotational spring 5000 kN·m/rad",
 		"at 5.000 m: carries no moment",
 		"4.000 m to 10.00 m; modulus 24000 kN/m² across",
@@ -95,5 +95,41 @@ func TestSheetShowsGroundAndHinges(t *testing.T) {
 	}
 	if n := countPages(pdf.Bytes()); n != 1 {
 		t.Errorf("the sheet has %d pages, want 1", n)
+	}
+}
+
+// The sheet's model table gives the inputs the temperature and the shear
+// deformation act through, as the file gives them: α wherever a
+// temperature acts (a uniform change too), the depth a temperature
+// difference acts over when it is given, and the shear area and modulus
+// when they are given instead of κ and ν; α not where no temperature acts.
+func TestSheetShowsThermalAndShearInputs(t *testing.T) {
+	steel := fem.Material{Elastic: 200e9, ThermalExpansion: 12e-6, ShearModulus: 80e9}
+	sec := fem.Section{Area: 5e-3, SecondMoment: 8e-5, FibreDistance: 0.15, Depth: 0.4, ShearArea: 2e-3}
+	held := []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 6, Kind: fem.Fixed}}
+	for _, c := range []struct {
+		name      string
+		m         *fem.Model
+		want, not string
+	}{
+		{"warmed", &fem.Model{Segments: []fem.Segment{{Start: 0, End: 6, Section: sec, Material: steel}}, Supports: held, TemperatureChange: 30},
+			"α 1.200e-05 1/K", "warmer"},
+		{"a difference over a depth given, shear area and modulus given", &fem.Model{Segments: []fem.Segment{{Start: 0, End: 6, Section: sec, Material: steel,
+			TemperatureDifference: 10, ShearDeformation: true}}, Supports: held},
+			"α 1.200e-05 1/K; bottom fibre warmer than the top by 10.00 K over a depth of 400.0 mm; shear deformation (Timoshenko beam), As 2000 mm², G 80.00 GPa", "κ"},
+		{"no temperature", &fem.Model{Segments: []fem.Segment{{Start: 0, End: 6, Section: sec, Material: steel}}, Supports: held,
+			PointLoads: []fem.PointLoad{{X: 3, Transverse: -1e4}}}, "E 200.0 GPa", "α"},
+	} {
+		page := buildSheet(SheetInput{Input: solved(t, c.m), Notes: SheetNotes{Version: "test"}})
+		var lines []string
+		for _, it := range page.Items {
+			if it.Kind == Text {
+				lines = append(lines, it.Text)
+			}
+		}
+		all := strings.Join(lines, "\n")
+		if !strings.Contains(all, c.want) || strings.Contains(all, c.not) {
+			t.Errorf("%s: the sheet should say %q and not %q:\n%s", c.name, c.want, c.not, all)
+		}
 	}
 }
