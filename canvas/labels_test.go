@@ -153,7 +153,8 @@ func svgTexts(t *testing.T, svg []byte) []string {
 
 // The screen labels the same numbers at the same places as an export of
 // the same model, whatever the two widths: each extreme where the results
-// table reports it, and the same largest gap. A sampling per pixel column
+// table reports it, and the same largest gap (of which the smaller screen
+// may leave one out where the extremes' labels crowd it). A sampling per pixel column
 // gave the shear's largest gap at 0 m on the screen and 0.923 m in the PNG.
 func TestScreenAndExportLabelTheSameResults(t *testing.T) {
 	compared := 0
@@ -180,7 +181,17 @@ func TestScreenAndExportLabelTheSameResults(t *testing.T) {
 		}
 		got, want := resultTexts(screen), resultTexts(svgTexts(t, svg.Bytes()))
 		compared += len(want)
-		if !slices.Equal(got, want) {
+		// The screen is the smaller drawing: a largest gap whose place is
+		// taken by the extremes' labels may be left out there (the placer
+		// drops a crowded label rather than cover another), nothing else.
+		var left []string
+		for _, s := range want {
+			if !slices.Contains(got, s) {
+				left = append(left, s)
+			}
+		}
+		extra := slices.DeleteFunc(slices.Clone(got), func(s string) bool { return slices.Contains(want, s) })
+		if len(extra) > 0 || slices.ContainsFunc(left, func(s string) bool { return !strings.HasPrefix(s, "largest gap ") }) || len(left) > 1 {
 			t.Errorf("%s: the screen labels\n%s\nthe export\n%s", c.name, strings.Join(got, "\n"), strings.Join(want, "\n"))
 		}
 		// Each labelled extreme is the one the results table reports.

@@ -45,12 +45,13 @@ func (c *curve) reset(v View) {
 		peakLo: extreme{value: math.Inf(1)}, peakHi: extreme{value: math.Inf(-1)}}
 }
 
-// takePeaks takes the closed-form extremes of one element.
+// takePeaks takes the closed-form extremes of one element, which follows
+// those taken: of equal peaks the first, as the results table (fem.Beyond).
 func (c *curve) takePeaks(lo, hi fem.Point) {
-	if lo.Value < c.peakLo.value {
+	if fem.Beyond(c.peakLo.value, lo.Value) {
 		c.peakLo = extreme{lo.X, lo.Value}
 	}
-	if hi.Value > c.peakHi.value {
+	if fem.Beyond(hi.Value, c.peakHi.value) {
 		c.peakHi = extreme{hi.X, hi.Value}
 	}
 }
@@ -341,10 +342,10 @@ func exactExtremes(e *fem.Exact, ivs []fem.Interval, v View, qs []fem.Quantity, 
 				continue
 			}
 			l, h := iv.Range(q)
-			if l.Value < lo[i].value {
+			if fem.Beyond(lo[i].value, l.Value) {
 				lo[i] = extreme{l.X, l.Value}
 			}
-			if h.Value > hi[i].value {
+			if fem.Beyond(h.Value, hi[i].value) {
 				hi[i] = extreme{h.X, h.Value}
 			}
 		}

@@ -224,12 +224,18 @@ func (sh *sheet) modelTable(m *fem.Model) {
 			f(units.Position, s.Start), f(units.Position, s.End), f(units.Area, s.Section.Area),
 			f(units.SecondMoment, s.Section.SecondMoment), f(units.Dimension, s.Section.FibreDistance),
 			f(units.Modulus, s.Material.Elastic), s.Material.Name)})
-		// What else the segment models, on a line of its own so the row fits,
-		// with the inputs that result from it: α where a temperature acts,
-		// the depth and the shear properties as the file gives them.
+		// What else the segment models, on a line of its own so the row
+		// fits: the material values the loads and checks use (the sheet of
+		// a rod under its own weight gave g but not ρ).
 		var also []string
-		if s.TemperatureDifference != 0 || heated {
-			also = append(also, "α "+f(units.ThermalExpansion, s.Material.ThermalExpansion))
+		if m.Gravity != [2]float64{} && s.Material.Density != 0 {
+			also = append(also, "density "+f(units.Density, s.Material.Density))
+		}
+		if (heated || s.TemperatureDifference != 0) && s.Material.ThermalExpansion != 0 {
+			also = append(also, "thermal expansion "+f(units.ThermalExpansion, s.Material.ThermalExpansion))
+		}
+		if s.Material.Allowable > 0 {
+			also = append(also, "allowable stress "+f(units.Stress, s.Material.Allowable))
 		}
 		if s.TemperatureDifference != 0 {
 			d := "bottom fibre warmer than the top by " + f(units.TemperatureChange, s.TemperatureDifference)
@@ -261,6 +267,9 @@ func (sh *sheet) modelTable(m *fem.Model) {
 		if s.Stiffness != [3]float64{} {
 			d += fmt.Sprintf("; k %s, %s, %s", f(units.TranslationalStiffness, s.Stiffness[0]),
 				f(units.TranslationalStiffness, s.Stiffness[1]), f(units.RotationalStiffness, s.Stiffness[2]))
+		}
+		if st := s.Settlement; st != [3]float64{} {
+			d += fmt.Sprintf("; settles %s, %s, %s", f(units.Deflection, st[0]), f(units.Deflection, st[1]), f(units.Rotation, st[2]))
 		}
 		rows = append(rows, [2]string{fmt.Sprintf("support %d", i+1), d})
 	}

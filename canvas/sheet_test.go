@@ -53,7 +53,7 @@ func TestSheetShowsGroundAndHinges(t *testing.T) {
 		t.Fatalf("the ground carries %g N at %g m: want up to the 100 kN load, on the foundation", g.Reaction.Force[1], g.Reaction.Centre())
 	}
 	for _, want := range []string{
-		"α 1.200e-05 1/K; bottom fibre warmer than the top by 20.00 K; shear deformation (Timoshenko beam), κ 0.4000, ν 0.3000",
+		"thermal expansion 1.200e-05 1/K; bottom fibre warmer than the top by 20.00 K; shear deformation (Timoshenko beam), κ 0.4000, ν 0.3000",
 		"at 3.000 m: rotational spring 5000 kN·m/rad",
 		"at 5.000 m: carries no moment",
 		"4.000 m to 10.00 m; modulus 24000 kN/m² across",
@@ -98,38 +98,78 @@ func TestSheetShowsGroundAndHinges(t *testing.T) {
 	}
 }
 
-// The sheet's model table gives the inputs the temperature and the shear
-// deformation act through, as the file gives them: α wherever a
-// temperature acts (a uniform change too), the depth a temperature
-// difference acts over when it is given, and the shear area and modulus
-// when they are given instead of κ and ν; α not where no temperature acts.
-func TestSheetShowsThermalAndShearInputs(t *testing.T) {
+// The model table gives the values the loads and the checks use: the
+// density under self-weight, the thermal expansion under a change of
+// temperature, the allowable stress, the supports' settlements, in the
+// sheet's units. A rod under
+// its own weight gave g but not ρ, so the sheet did not say what weight
+// was carried. US values from NIST SP 811, Appendix B: 1 lb/ft³ =
+// 16.01846 kg/m³, 1 ksi = 6.894757 MPa, 1/°F = (5/9)/K.
+func TestSheetGivesTheMaterialValuesTheLoadsUse(t *testing.T) {
+	steel := fem.Material{Name: "steel", Elastic: 200e9, Density: 7850, ThermalExpansion: 12e-6, Allowable: 250e6}
+	sec := fem.Section{Area: 1e-3, SecondMoment: 8e-6, FibreDistance: 0.1}
+	rod := fem.Model{Segments: []fem.Segment{{Start: 0, End: 4, Section: sec, Material: steel}},
+		Supports: []fem.Support{{X: 0, Kind: fem.Fixed}}, Gravity: [2]float64{fem.StandardGravity, 0}}
+	heated := fem.Model{Segments: rod.Segments, Supports: []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 4, Kind: fem.Pinned}}, TemperatureChange: 30}
+	settled := fem.Model{Segments: rod.Segments, Supports: []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 4, Kind: fem.Roller, Settlement: [3]float64{0, -0.0254, 0}}}}
+	for _, c := range []struct {
+		name   string
+		model  fem.Model
+		system units.System
+		want   []string
+		absent []string
+	}{
+		{"rod under its own weight, SI", rod, units.SI, []string{"density 7850 kg/m³; allowable stress 250.0 MPa"}, []string{"thermal expansion"}},
+		// 7850 / 16.01846 = 490.06 lb/ft³; 250 / 6.894757 = 36.26 ksi.
+		{"rod under its own weight, US", rod, units.USCustomary, []string{"density 490.1 lb/ft³; allowable stress 36.26 ksi"}, []string{"thermal expansion"}},
+		// 12e-6 /K × 5/9 = 6.667e-6 /°F.
+		{"heated bar, US", heated, units.USCustomary, []string{"thermal expansion 6.667e-06 1/°F; allowable stress 36.26 ksi"}, []string{"density"}},
+		// A settlement is a load too: 25.4 mm is 1 in exactly.
+		{"settled support, US", settled, units.USCustomary, []string{"roller at 13.12 ft; settles 0 in, -1.000 in, 0 rad"}, []string{"density", "thermal expansion"}},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			in := solved(t, &c.model)
+			in.Units = c.system
+			page := buildSheet(SheetInput{Input: in, Notes: SheetNotes{Version: "test"}})
+			var text strings.Builder
+			for _, it := range page.Items {
+				if it.Kind == Text {
+					text.WriteString(it.Text + "\n")
+				}
+			}
+			for _, w := range c.want {
+				if !strings.Contains(text.String(), w) {
+					t.Errorf("the sheet does not say %q:\n%s", w, text.String())
+				}
+			}
+			for _, a := range c.absent {
+				if strings.Contains(text.String(), a) {
+					t.Errorf("the sheet gives the %s, which no load uses", a)
+				}
+			}
+		})
+	}
+}
+
+// The model table gives the depth a temperature difference acts over when
+// the file gives one (not twice the fibre distance), and the shear
+// properties as the file gives them: the shear area and modulus, or κ and
+// ν (TestSheetShowsGroundAndHinges); a checker reproduces a thermal or a
+// shear result from them.
+func TestSheetShowsDepthAndShearInputs(t *testing.T) {
 	steel := fem.Material{Elastic: 200e9, ThermalExpansion: 12e-6, ShearModulus: 80e9}
 	sec := fem.Section{Area: 5e-3, SecondMoment: 8e-5, FibreDistance: 0.15, Depth: 0.4, ShearArea: 2e-3}
-	held := []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 6, Kind: fem.Fixed}}
-	for _, c := range []struct {
-		name      string
-		m         *fem.Model
-		want, not string
-	}{
-		{"warmed", &fem.Model{Segments: []fem.Segment{{Start: 0, End: 6, Section: sec, Material: steel}}, Supports: held, TemperatureChange: 30},
-			"α 1.200e-05 1/K", "warmer"},
-		{"a difference over a depth given, shear area and modulus given", &fem.Model{Segments: []fem.Segment{{Start: 0, End: 6, Section: sec, Material: steel,
-			TemperatureDifference: 10, ShearDeformation: true}}, Supports: held},
-			"α 1.200e-05 1/K; bottom fibre warmer than the top by 10.00 K over a depth of 400.0 mm; shear deformation (Timoshenko beam), As 2000 mm², G 80.00 GPa", "κ"},
-		{"no temperature", &fem.Model{Segments: []fem.Segment{{Start: 0, End: 6, Section: sec, Material: steel}}, Supports: held,
-			PointLoads: []fem.PointLoad{{X: 3, Transverse: -1e4}}}, "E 200.0 GPa", "α"},
-	} {
-		page := buildSheet(SheetInput{Input: solved(t, c.m), Notes: SheetNotes{Version: "test"}})
-		var lines []string
-		for _, it := range page.Items {
-			if it.Kind == Text {
-				lines = append(lines, it.Text)
-			}
+	m := &fem.Model{Segments: []fem.Segment{{Start: 0, End: 6, Section: sec, Material: steel, TemperatureDifference: 10, ShearDeformation: true}},
+		Supports: []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 6, Kind: fem.Fixed}}}
+	page := buildSheet(SheetInput{Input: solved(t, m), Notes: SheetNotes{Version: "test"}})
+	var lines []string
+	for _, it := range page.Items {
+		if it.Kind == Text {
+			lines = append(lines, it.Text)
 		}
-		all := strings.Join(lines, "\n")
-		if !strings.Contains(all, c.want) || strings.Contains(all, c.not) {
-			t.Errorf("%s: the sheet should say %q and not %q:\n%s", c.name, c.want, c.not, all)
-		}
+	}
+	const want = "bottom fibre warmer than the top by 10.00 K over a depth of 400.0 mm; shear deformation (Timoshenko beam), As 2000 mm², G 80.00 GPa"
+	if all := strings.Join(lines, "\n"); !strings.Contains(all, want) {
+		t.Errorf("the sheet should say %q:\n%s", want, all)
 	}
 }

@@ -253,7 +253,8 @@ func checkSize(s *Scene, scale float64) error {
 	if s == nil {
 		return fmt.Errorf("canvas: no scene to write: call Build first")
 	}
-	if s.Width < 1 || s.Height < 1 || !(scale > 0) || float64(s.Width)*scale > 20000 || float64(s.Height)*scale > 20000 {
+	w, h := float64(s.Width)*scale, float64(s.Height)*scale
+	if s.Width < 1 || s.Height < 1 || !(w >= 1 && w <= 20000 && h >= 1 && h <= 20000) {
 		return fmt.Errorf("canvas: cannot write a drawing of %v × %v pixels at scale %v: each side must come to between 1 and 20000 pixels", s.Width, s.Height, scale)
 	}
 	return nil

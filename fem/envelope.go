@@ -474,24 +474,12 @@ func (w *envelopeWalk) visit(e int, start, end float64) {
 // combination c, where they pass the extremes so far; the first met wins a
 // tie.
 func (w *envelopeWalk) take(lo, hi *envelopePoint, e int, x0, h float64, c int, l, u extremum) {
-	if beyond(lo.value, l.value) {
+	if Beyond(lo.value, l.value) {
 		*lo = envelopePoint{e, x0, x0 + h, l.xi, x0 + l.xi*h, l.value, c}
 	}
-	if beyond(u.value, hi.value) {
+	if Beyond(u.value, hi.value) {
 		*hi = envelopePoint{e, x0, x0 + h, u.xi, x0 + u.xi*h, u.value, c}
 	}
-}
-
-// envelopeTie is the relative difference within which two extremes of an
-// envelope tie: round-off, which would otherwise choose between the equal
-// peaks of a symmetric member.
-const envelopeTie = 1e-12
-
-// beyond reports whether a exceeds b by more than a tie (envelopeTie of
-// the smaller size; an infinite a, the start of a search, exceeds every
-// number): the later of two places is taken only then.
-func beyond(a, b float64) bool {
-	return a > b && !(a-b <= envelopeTie*math.Min(math.Abs(a), math.Abs(b)))
 }
 
 // patternRange is the smallest and the largest value on [0, 1] of
@@ -556,10 +544,10 @@ func rangeBetween(p *Polynomial, d int, a, b float64) (lo, hi extremum) {
 // w's, the earlier.
 func (w *envelopeWalk) join(later *envelopeWalk) {
 	keep := func(lo, hi *envelopePoint, l, u envelopePoint) {
-		if beyond(lo.value, l.value) {
+		if Beyond(lo.value, l.value) {
 			*lo = l
 		}
-		if beyond(u.value, hi.value) {
+		if Beyond(u.value, hi.value) {
 			*hi = u
 		}
 	}

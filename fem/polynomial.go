@@ -110,6 +110,7 @@ func keepInside(r *[polynomialTerms - 1]float64, roots []float64) int {
 // the root free of cancellation, then the other from the product of the
 // roots (Numerical Recipes, ch. 5.6, from memory).
 func quadraticRoots(a, b, c float64, dst []float64) []float64 {
+	a, b, c = scaledToOne(a, b, c)
 	disc := b*b - 4*a*c
 	if disc < 0 {
 		return dst
@@ -119,6 +120,20 @@ func quadraticRoots(a, b, c float64, dst []float64) []float64 {
 		return append(dst, 0)
 	}
 	return append(dst, q/a, c/q)
+}
+
+// scaledToOne is a, b, c divided by the power of two that brings the
+// largest of them into [0.5, 1): the coefficients of a quadratic whose
+// discriminant b² − 4ac would underflow to zero (a field near 1e-200 in SI
+// units, say) or overflow, with the same roots, bit for bit where it would
+// not.
+func scaledToOne(a, b, c float64) (float64, float64, float64) {
+	largest := max(math.Abs(a), math.Abs(b), math.Abs(c))
+	if largest == 0 || math.IsInf(largest, 0) || math.IsNaN(largest) {
+		return a, b, c
+	}
+	_, e := math.Frexp(largest)
+	return math.Ldexp(a, -e), math.Ldexp(b, -e), math.Ldexp(c, -e)
 }
 
 // bracketedRoot finds the one root of p (of degree d, derivative dp) in
@@ -171,7 +186,7 @@ func rangeOn(p *Polynomial, d int, v0, v1 float64) (lo, hi extremum) {
 		}
 	case d == 3:
 		// p' = 3·p3·ξ² + 2·p2·ξ + p1, its roots as quadraticRoots finds them.
-		a, b, c := 3*p[3], 2*p[2], p[1]
+		a, b, c := scaledToOne(3*p[3], 2*p[2], p[1])
 		if disc := b*b - 4*a*c; disc >= 0 {
 			q := -0.5 * (b + math.Copysign(math.Sqrt(disc), b))
 			r0, r1 := q/a, c/q
@@ -448,6 +463,7 @@ func linearBubbleSquare(a, b float64) float64 {
 func realRoots(a, b, c float64, r *[2]float64) int {
 	switch {
 	case a != 0:
+		a, b, c = scaledToOne(a, b, c)
 		disc := b*b - 4*a*c
 		if disc < 0 {
 			return 0
@@ -481,4 +497,19 @@ func newtonTurn(dp, ddp *Polynomial, xi float64) float64 {
 		}
 	}
 	return xi
+}
+
+// extremeTie is the relative difference within which two extremes tie:
+// round-off, which would otherwise choose between the equal peaks of a
+// symmetric member (the two spans of a symmetric continuous beam).
+const extremeTie = 1e-12
+
+// Beyond reports whether a exceeds b by more than a tie (extremeTie of the
+// smaller size; an infinite b, the start of a search, is exceeded by every
+// number): a search along the member takes a later place for its largest
+// value only then, and for its smallest only where Beyond(earlier, later),
+// so that of two equal peaks the first along the member is named
+// everywhere, in the tables, the envelopes and the drawings.
+func Beyond(a, b float64) bool {
+	return a > b && !(a-b <= extremeTie*math.Min(math.Abs(a), math.Abs(b)))
 }

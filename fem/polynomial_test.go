@@ -1,6 +1,7 @@
 package fem
 
 import (
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"slices"
@@ -241,5 +242,50 @@ func TestBubbles(t *testing.T) {
 	line := Polynomial{0, 1, -1 + 1e-9}
 	if _, _, ok := linearBubble(&line, 1e-12); ok {
 		t.Error("linearBubble took a polynomial whose end value is beyond the noise")
+	}
+}
+
+// The roots and the range of a polynomial do not depend on its scale: c·p
+// has the roots of p, and its extremes are c times those of p at the same
+// ξ (a property of polynomials). A field whose coefficients are near 1e-200
+// (the deflection of a 1e-200 N load) squared them to zero in b² − 4ac and
+// lost its turning points: the largest moment of such a beam was read at
+// its end. Scales are powers of two, so c·p is exact and so must be the
+// answers.
+func TestPolynomialRootsAndRangeAreScaleFree(t *testing.T) {
+	for _, c := range []struct {
+		name string
+		p    Polynomial
+	}{
+		{"quadratic with a vertex inside", fromRoots(-1, 0.2, 0.9)},
+		{"cubic with two turns inside", fromRoots(1, 0.1, 0.5, 0.9)},
+		// The moment of a simply supported beam under a triangular load,
+		// ξ(1 − ξ²)/6 (Roark's Formulas, Table 8.1, from memory).
+		{"cubic of a triangular load's moment", Polynomial{0, 1.0 / 6, 0, -1.0 / 6}},
+		{"quartic with three turns inside", fromRoots(1, 0.1, 0.4, 0.6, 0.95)},
+		{"quintic with four turns inside", fromRoots(1, 0.05, 0.3, 0.5, 0.7, 0.95)},
+	} {
+		d := c.p.Degree()
+		var want [polynomialTerms - 1]float64
+		nWant := c.p.roots(&want)
+		lo, hi := rangeOn(&c.p, d, c.p[0], c.p.at(d, 1))
+		for _, e := range []int{-900, -700, -520, 520, 900} {
+			s := math.Ldexp(1, e)
+			t.Run(fmt.Sprintf("%s, times 2^%d", c.name, e), func(t *testing.T) {
+				var q Polynomial
+				for k := range q {
+					q[k] = c.p[k] * s
+				}
+				var got [polynomialTerms - 1]float64
+				if n := q.roots(&got); !slices.Equal(got[:n], want[:nWant]) {
+					t.Errorf("roots %v, want %v", got[:n], want[:nWant])
+				}
+				l, h := rangeOn(&q, d, q[0], q.at(d, 1))
+				if l.xi != lo.xi || l.value != lo.value*s || h.xi != hi.xi || h.value != hi.value*s {
+					t.Errorf("range [%g at ξ = %g, %g at ξ = %g], want [%g at %g, %g at %g]",
+						l.value, l.xi, h.value, h.xi, lo.value*s, lo.xi, hi.value*s, hi.xi)
+				}
+			})
+		}
 	}
 }

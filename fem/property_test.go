@@ -803,7 +803,7 @@ func TestValidationMessagesNameItemAndPlace(t *testing.T) {
 		{"support before the start", func(m *fem.Model) { m.Supports[0].X = -0.5 },
 			fem.Place{Item: fem.Item{Kind: fem.SupportItem, Index: 0}, Property: fem.PositionProperty}, "support 1 at x = -0.5 m lies outside the member (length 6.0 m)"},
 		{"supports closer than the merge tolerance", func(m *fem.Model) { m.Supports[1].X = 1e-13 },
-			fem.Place{Item: fem.Item{Kind: fem.SupportItem, Index: 1}, Property: fem.PositionProperty}, "supports 1 and 2 are both at x = 1e-13 m"},
+			fem.Place{Item: fem.Item{Kind: fem.SupportItem, Index: 1}, Property: fem.PositionProperty}, "supports 1 and 2 are at x = 0.0 m and x = 1e-13 m, which count as one point"},
 		{"NaN spring stiffness", func(m *fem.Model) {
 			m.Supports[1] = fem.Support{X: 6, Kind: fem.Spring, Stiffness: [3]float64{1e6, 1e6, nan}}
 		},

@@ -159,6 +159,10 @@ func (s *Summary) Worst() (Extreme, bool) {
 type extremes struct {
 	lo, hi [quantityCount]Point
 	seen   bool
+	// tie is, per quantity, a difference within which a later value ties
+	// with the extreme so far, beside Beyond's relative one: round-off
+	// against the field's size (exactExtremes); zero in a walk.
+	tie [quantityCount]float64
 }
 
 func newExtremes() *extremes {
@@ -191,19 +195,8 @@ func (x *extremes) Visit(v *ElementView) {
 
 // ends takes the values a at x0 and b at x1 of q, the first winning a tie.
 func (x *extremes) ends(q Quantity, x0, a, x1, b float64) {
-	lo, hi := &x.lo[q], &x.hi[q]
-	if a < lo.Value {
-		*lo = Point{x0, a}
-	}
-	if a > hi.Value {
-		*hi = Point{x0, a}
-	}
-	if b < lo.Value {
-		*lo = Point{x1, b}
-	}
-	if b > hi.Value {
-		*hi = Point{x1, b}
-	}
+	x.take(q, Point{x0, a}, Point{x0, a})
+	x.take(q, Point{x1, b}, Point{x1, b})
 }
 
 // insideBeyond reports whether a value inside fe of polynomial quantity q,
@@ -227,12 +220,13 @@ func (x *extremes) insideBeyond(q Quantity, fe *Interval, a, b float64) bool {
 	return true
 }
 
-// take keeps lo and hi where they are beyond the extremes of q so far.
+// take keeps lo and hi where they are beyond the extremes of q so far by
+// more than a tie (Beyond): of equal peaks the first along the member.
 func (x *extremes) take(q Quantity, lo, hi Point) {
-	if lo.Value < x.lo[q].Value {
+	if Beyond(x.lo[q].Value, lo.Value) && x.lo[q].Value-lo.Value > x.tie[q] {
 		x.lo[q] = lo
 	}
-	if hi.Value > x.hi[q].Value {
+	if Beyond(hi.Value, x.hi[q].Value) && hi.Value-x.hi[q].Value > x.tie[q] {
 		x.hi[q] = hi
 	}
 }
@@ -264,20 +258,32 @@ func (x *extremes) list() []Extreme {
 }
 
 // exactExtremes are the extremes of e, stretch by stretch in closed form,
-// on one reused interval.
+// on one reused interval. A second pass takes values within extremeTie of
+// each field's largest magnitude as ties, so that of the supports where a
+// deflection is zero to round-off the first is named, as the finite
+// element walk names it.
 func exactExtremes(e *Exact) *extremes {
-	x := newExtremes()
 	var v Interval
-	for j := range e.stretches {
-		st := &e.stretches[j]
-		st.interval(0, 1, st.start, st.length, &v)
-		x.seen = true
-		for q := range Quantity(quantityCount) {
-			lo, hi := v.Range(q)
-			x.take(q, lo, hi)
+	pass := func(tie *[quantityCount]float64) *extremes {
+		x := newExtremes()
+		x.tie = *tie
+		for j := range e.stretches {
+			st := &e.stretches[j]
+			st.interval(0, 1, st.start, st.length, &v)
+			x.seen = true
+			for q := range Quantity(quantityCount) {
+				lo, hi := v.Range(q)
+				x.take(q, lo, hi)
+			}
 		}
+		return x
 	}
-	return x
+	var tie [quantityCount]float64
+	first := pass(&tie)
+	for q := range tie {
+		tie[q] = extremeTie * max(math.Abs(first.lo[q].Value), math.Abs(first.hi[q].Value))
+	}
+	return pass(&tie)
 }
 
 // withExact makes the exact extremes ex the headline values of list and
@@ -294,6 +300,13 @@ func withExact(list []Extreme, ex *extremes, L float64, floor [3]float64) {
 		off := math.Max(math.Abs(e.FEMax-e.Max), math.Abs(e.FEMin-e.Min))
 		if scale := fieldScale(e.Quantity, &largest, L, floor); scale > 0 {
 			e.Accuracy = off / scale
+			// A value that is round-off against the field's size (a moment
+			// at a free end, 1e-14 kN·m) is zero, as the closed form says.
+			for _, v := range [4]*float64{&e.Max, &e.Min, &e.FEMax, &e.FEMin} {
+				if math.Abs(*v) <= negligible*scale {
+					*v = 0
+				}
+			}
 		}
 	}
 }

@@ -246,3 +246,76 @@ func TestSummaryCoarseMesh(t *testing.T) {
 		t.Errorf("worst extreme %v (%v), want the shear force", worst.Quantity, ok)
 	}
 }
+
+// Values that are zero in closed form read zero, not their round-off: a
+// cantilever fixed at x = 0 under a tip load P has M(x) = −P·(L − x), zero
+// at the free end, and θ = −P·x·(2L − x)/(2EI), zero at the fixed end (Gere
+// & Goodno, Mechanics of Materials, table of cantilever beams, from
+// memory), so the largest moment and the largest rotation are 0 exactly,
+// in the exact and the finite element columns alike; and two equal
+// extremes (the shear is −P everywhere) are named at the first place.
+func TestSummaryZeroesRoundOff(t *testing.T) {
+	const L, P = 4.0, 10e3
+	m := &Model{
+		Segments: []Segment{{Start: 0, End: L,
+			Section:  Section{Area: 4e-3, SecondMoment: 8e-6, FibreDistance: 0.1},
+			Material: Material{Elastic: 200e9}}},
+		Supports:   []Support{{X: 0, Kind: Fixed}},
+		PointLoads: []PointLoad{{X: L, Transverse: -P}},
+		Mesh:       MeshSettings{Elements: 7},
+	}
+	s, err := Solve(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sum := Summarize(s, e)
+	for _, q := range []Quantity{QBendingMoment, QBendingStress, QRotation} {
+		x := sum.Extremes[q]
+		if x.Max != 0 || x.FEMax != 0 {
+			t.Errorf("%s: largest %g (exact) and %g (FE), want 0 and 0", q, x.Max, x.FEMax)
+		}
+	}
+	if v := sum.Extremes[QShearForce]; v.XMax != 0 || v.FEXMax != 0 || v.XMin != 0 || v.FEXMin != 0 {
+		t.Errorf("constant shear: extremes at %g, %g (exact) and %g, %g (FE), want all at 0", v.XMin, v.XMax, v.FEXMin, v.FEXMax)
+	}
+}
+
+// Of equal peaks the first along the member is named, in both columns: a
+// beam continuous over two equal spans L under a uniform load w sags most,
+// M = 9wL²/128 at 3L/8 from an end support, in each span alike (AISC
+// Manual, beam diagrams and formulas, continuous beam of two equal spans,
+// from memory), and its deflection is zero at all three supports.
+func TestSummaryNamesTheFirstOfEqualPeaks(t *testing.T) {
+	const L, w = 4.0, 10e3
+	m := &Model{
+		Segments: []Segment{{Start: 0, End: 2 * L,
+			Section:  Section{Area: 4e-3, SecondMoment: 8e-6, FibreDistance: 0.1},
+			Material: Material{Elastic: 200e9}}},
+		Supports:        []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}, {X: 2 * L, Kind: Roller}},
+		DistributedLoad: []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -w}, {2 * L, -w}}}},
+		Mesh:            MeshSettings{Elements: 32},
+	}
+	s, err := Solve(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sum := Summarize(s, e)
+	mo := sum.Extremes[QBendingMoment]
+	if want := 9 * w * L * L / 128; math.Abs(mo.Max-want) > 1e-9*want || math.Abs(mo.XMax-3*L/8) > 1e-9*L {
+		t.Errorf("exact largest moment %g at %g m, want %g at %g m", mo.Max, mo.XMax, want, 3*L/8)
+	}
+	if mo.FEXMax > L {
+		t.Errorf("finite element largest moment named at %g m, in the second span; the first span's peak is equal", mo.FEXMax)
+	}
+	if d := sum.Extremes[QDeflection]; d.Max != 0 || d.XMax != 0 || d.FEMax != 0 || d.FEXMax != 0 {
+		t.Errorf("largest deflection %g at %g m (exact), %g at %g m (FE), want 0 at the first support", d.Max, d.XMax, d.FEMax, d.FEXMax)
+	}
+}

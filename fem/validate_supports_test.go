@@ -20,7 +20,7 @@ func duplicateSupports(t *testing.T, m *Model) []string {
 	var out []string
 	if ve != nil {
 		for _, p := range ve.Problems {
-			if strings.Contains(p.Message, " are both at x = ") {
+			if strings.Contains(p.Message, " are both at x = ") || strings.Contains(p.Message, "count as one point") {
 				out = append(out, p.Message[:strings.Index(p.Message, ":")])
 			}
 		}
@@ -56,6 +56,10 @@ func TestValidateDuplicateSupportsNameThePair(t *testing.T) {
 		{"past the end, then inside", []float64{0, 3 + 1.5*tol, 3 + 0.7*tol},
 			[]string{"supports 2 and 3 are both at x = 3.0 m"}},
 		{"a place that is not a number", []float64{0, nan, 3, nan, 0}, []string{"supports 1 and 5 are both at x = 0.0 m"}},
+		// Near 0 the places print apart: the sentence names both (it said
+		// both were at the second's, 1e-12 m).
+		{"within the tolerance of the start", []float64{0, 1e-12, 3},
+			[]string{"supports 1 and 2 are at x = 0.0 m and x = 1e-12 m, which count as one point (closer than 1e-12 of the member's length)"}},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
@@ -91,7 +95,7 @@ func TestValidateDuplicateSupportsAsEveryPair(t *testing.T) {
 		for i, s := range m.Supports {
 			for j := range i {
 				if math.Abs(m.Supports[j].X-s.X) <= tol {
-					want = append(want, fmt.Sprintf("supports %d and %d are both at x = %s", j+1, i+1, fmtMetres(s.X)))
+					want = append(want, fmt.Sprintf("supports %d and %d %s", j+1, i+1, atOnePoint(m.Supports[j].X, s.X)))
 					break
 				}
 			}

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"math"
 	"runtime"
+	"strconv"
 	"strings"
 	"testing"
 )
@@ -138,6 +139,17 @@ func TestValidateHostileInput(t *testing.T) {
 		// 7.08 GB; 4,294,967,296 / 23,600 = 181,990 key points fit.
 		{"300,000 point loads", func(m *Model) { m.PointLoads = manyPointLoads(300_000, 3) }, place(ModelItem, -1, NoProperty),
 			"the model would need at least 9.4 GB of memory for its 3e+05 key points (ends and breaks of segments, supports, point loads and load points), more than the 4.3 GB allowed: use fewer supports, point loads and load points, or split the member into several models (up to about 1.38e+05 key points fit)"},
+		// Each load case keeps its own solution, so what fits for one case
+		// (1.38e+05 key points, the row above) is shared among 1,000 cases:
+		// 137 key points (it said 1.38e+05, as for one case).
+		{"1,000 load cases of 1,000 point loads", func(m *Model) {
+			loads := manyPointLoads(1000, 3)
+			m.PointLoads = nil
+			for i, p := range loads {
+				m.Cases = append(m.Cases, LoadCase{Name: "case " + strconv.Itoa(i+1), PointLoads: []PointLoad{p}})
+			}
+		}, place(ModelItem, -1, NoProperty),
+			"key points (ends and breaks of segments, supports, point loads and load points), each solved for 1e+03 load cases, more than the 4.3 GB allowed: use fewer supports, point loads and load points or fewer load cases, or split the member into several models (up to about 137 key points fit for 1e+03 load cases)"},
 		// 100,000 point loads take 2.32 GB, which leaves room for
 		// (4,294,967,296 − 100,012 × 23,200) / 400 = 4,936,722 elements.
 		{"ten million elements and 100,000 point loads", func(m *Model) {

@@ -338,3 +338,43 @@ func TestDecodeCutsLongTextsInMessages(t *testing.T) {
 		})
 	}
 }
+
+// The refusal of a file nested too deep says how deeply a project nests
+// lists and objects: as deep as the shipped files with cases do, no deeper
+// than any (it said 5 while files with cases nest 7 deep).
+func TestProjectDepthIsTheShippedFilesDeepest(t *testing.T) {
+	files, err := filepath.Glob(filepath.Join("..", "testdata", "*.json"))
+	if err != nil || len(files) == 0 {
+		t.Fatalf("no model files in testdata (err %v)", err)
+	}
+	deepest := 0
+	for _, name := range files {
+		data, err := os.ReadFile(name)
+		if err != nil {
+			t.Fatal(err)
+		}
+		tree, err := parseTree(data)
+		if err != nil {
+			t.Fatalf("%s: %v", name, err)
+		}
+		deepest = max(deepest, nodeDepth(tree))
+	}
+	if deepest != projectDepth {
+		t.Errorf("the shipped files nest lists and objects %d deep, the refusal says %d", deepest, projectDepth)
+	}
+}
+
+// nodeDepth is how many lists and objects nest in n, n included.
+func nodeDepth(n *node) int {
+	inner := 0
+	for _, c := range n.items {
+		inner = max(inner, nodeDepth(c))
+	}
+	for _, c := range n.fields {
+		inner = max(inner, nodeDepth(c))
+	}
+	if n.kind == arrayNode || n.kind == objectNode {
+		return inner + 1
+	}
+	return inner
+}

@@ -51,9 +51,13 @@ func (n *node) describe() string {
 }
 
 // maxDepth is how deeply a file may nest lists and objects. A project nests
-// them 5 deep (loads[i].points[j][0]); the bound keeps the recursion below
-// far from the end of the stack, whose overflow is fatal, not a panic.
+// them projectDepth deep; the bound keeps the recursion below far from the
+// end of the stack, whose overflow is fatal, not a panic.
 const maxDepth = 64
+
+// projectDepth is the deepest a project nests lists and objects: the file's
+// object, then cases[i].loads[j].points[k] (a point is a list).
+const projectDepth = 7
 
 // parseTree reads one JSON value and nothing after it. Its errors name the
 // line and column.
@@ -125,7 +129,7 @@ func (p *treeParser) value(depth int) (*node, error) {
 		return &node{kind: stringNode, text: t, damaged: damaged}, nil
 	case json.Delim:
 		if depth == maxDepth {
-			return nil, fmt.Errorf("%s: lists and objects are nested more than %d deep here (a Stave project nests them 5 deep), so this is not a Stave project file or it is damaged; open a file saved by Stave", p.position(p.dec.InputOffset()-1), maxDepth)
+			return nil, fmt.Errorf("%s: lists and objects are nested more than %d deep here (a Stave project nests them %d deep at most), so this is not a Stave project file or it is damaged; open a file saved by Stave", p.position(p.dec.InputOffset()-1), maxDepth, projectDepth)
 		}
 		if t == '[' {
 			return p.array(depth + 1)

@@ -85,8 +85,18 @@ func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
 		}
 		return v
 	}
+	// Where the line jumps, at the reading point, the load read there
+	// stands on the side of the section away from the one read, as the
+	// finite element load on that node does: just left of it for the
+	// value just right. The shear force just right of a load on the point
+	// read the load as if past it (13/32 instead of 13/32 − 1 for a load
+	// at midspan of two equal spans), beside the finite element −19/32.
+	side := fem.Right
+	if !r.Target.Reaction && r.Target.Side == fem.Right {
+		side = fem.Left
+	}
 	for i, s := range positions {
-		sample := InfluenceSample{S: s, Exact: clean(line.At(s, fem.Right))}
+		sample := InfluenceSample{S: s, Exact: clean(line.At(s, side))}
 		if fe != nil {
 			fe[i] = clean(fe[i])
 			sample.FE, sample.FEAt = &fe[i], &at[i]
@@ -97,9 +107,7 @@ func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
 	if !target.Bending() {
 		target = nil // a train loads across: nothing to say of an axial target
 	}
-	if out.Trains, err = trainResults(p, in, out.Mesh, target, r.Envelope); err != nil {
-		return nil, err
-	}
+	out.Trains = trainResults(p, in, out.Mesh, target, r.Envelope)
 	return out, nil
 }
 
@@ -236,11 +244,28 @@ func describeTarget(t moving.Target, u units.System) string {
 // describeTrain says what a train is, in one line.
 func describeTrain(t *moving.Train, label string, L float64, u units.System) string {
 	s := label + ":"
-	for i, a := range t.Axles {
-		if i > 0 {
-			s += fmt.Sprintf(" –%s–", u.Format(units.Position, a.Spacing))
+	axles := t.Axles
+	if len(axles) > 0 {
+		s += " " + u.Format(units.Force, axles[0].Load)
+		axles = axles[1:]
+	}
+	// A run of equal axles at equal spacing is written once with its count:
+	// a long train would otherwise fill a page with one line.
+	for len(axles) > 0 {
+		a, k := axles[0], 1
+		for k < len(axles) && axles[k] == a {
+			k++
 		}
-		s += " " + u.Format(units.Force, a.Load)
+		if k > 2 {
+			s += fmt.Sprintf(" then %d times", k)
+		} else {
+			k = 1
+		}
+		s += fmt.Sprintf(" –%s– %s", u.Format(units.Position, a.Spacing), u.Format(units.Force, a.Load))
+		axles = axles[k:]
+	}
+	if n := len(t.Axles); n > 3 {
+		s += fmt.Sprintf("; %d axles over %s", n, u.Format(units.Position, t.Length()))
 	}
 	if ul := t.Uniform; ul.Load > 0 {
 		s += fmt.Sprintf("; %s over %s from %s behind the front", u.Format(units.LineLoad, ul.Load), u.Format(units.Position, ul.Length), u.Format(units.Position, ul.Start))

@@ -90,8 +90,8 @@ const (
 )
 
 func (o Options) withDefaults() (Options, error) {
-	if o.Width < 0 || o.Height < 0 || o.DPI < 0 {
-		return o, fmt.Errorf("export size %g × %g points at %g dpi: give positive numbers (or 0 for the defaults)", o.Width, o.Height, o.DPI)
+	if err := CheckSize(float64(o.Width), float64(o.Height), o.DPI); err != nil {
+		return o, err
 	}
 	if o.CSVPoints < 0 || o.CSVPoints > canvas.CSVMaxPoints {
 		return o, fmt.Errorf("%d points per element for the results table: give 1 to %d (or 0 for the default)", o.CSVPoints, canvas.CSVMaxPoints)
@@ -106,6 +106,31 @@ func (o Options) withDefaults() (Options, error) {
 		o.DPI = defaultDPI
 	}
 	return o, nil
+}
+
+// MaxSide is the longest side a drawing may have, in points; a PNG's sides
+// come to at most as many pixels (canvas refuses more).
+const MaxSide = 20000
+
+// CheckSize refuses a drawing's width or height (points) or a PNG's density
+// (dpi) that no drawing can have: not a number, infinite, negative, or a
+// side outside 1 to MaxSide points or a density below 1 dpi (a density that
+// makes a PNG larger than MaxSide pixels canvas refuses). 0 stands for the
+// default. A side of 10⁹ points had the vector drawings sample their
+// curves at every point until memory ran out.
+func CheckSize(width, height, dpi float64) error {
+	for _, side := range []struct {
+		name  string
+		value float64
+	}{{"width", width}, {"height", height}} {
+		if side.value != 0 && !(side.value >= 1 && side.value <= MaxSide) {
+			return fmt.Errorf("a drawing %s of %g points: give 1 to %d points (or 0 for the default)", side.name, side.value, MaxSide)
+		}
+	}
+	if dpi != 0 && !(dpi >= 1 && dpi <= MaxSide) {
+		return fmt.Errorf("a density of %g dpi: give 1 to %d dpi (or 0 for the default 96)", dpi, MaxSide)
+	}
+	return nil
 }
 
 // Source is what every product is made from: a project, an analysis of its

@@ -60,40 +60,51 @@ type QuantityWorst struct {
 }
 
 // trainResults places every train of p on the member of in: its extremes
-// of target when one is given, and its envelope when asked.
-func trainResults(p *storage.Project, in *moving.Influence, mesh fem.Mesh, target *moving.Target, envelope bool) ([]TrainResult, error) {
-	L := p.Model.Length()
+// of target when one is given, and its envelope when asked; a train that
+// cannot be worked out carries why.
+func trainResults(p *storage.Project, in *moving.Influence, mesh fem.Mesh, target *moving.Target, envelope bool) []TrainResult {
 	var out []TrainResult
 	for i := range p.Trains {
 		t := &p.Trains[i]
 		tr := TrainResult{Train: *t, Label: t.Label(i)}
-		if err := t.Check(L, i); err != nil {
-			tr.Err = err
-			out = append(out, tr)
-			continue
-		}
-		if target != nil {
-			hi, lo, err := in.Worst(t, mesh, *target)
-			if err != nil {
-				return nil, err
-			}
-			tr.Target, tr.Largest, tr.Smallest = true, trainExtreme(hi), trainExtreme(lo)
-		}
-		if envelope {
-			var err error
-			if tr.Envelope, err = in.Envelope(t, mesh, nil); err != nil {
-				return nil, err
-			}
-			if tr.Worst, err = checkedWorst(&p.Model, t, tr.Envelope); err != nil {
-				return nil, err
-			}
-			if tr.Combinations, err = trainCombinations(p, i, in, mesh, tr.Envelope); err != nil {
-				return nil, err
-			}
+		if err := trainResult(p, i, in, mesh, target, envelope, &tr); err != nil {
+			// The train's own: the others are worked out all the same (an
+			// axle of 1e300 N on one train had every train of the file
+			// reported as not placed).
+			tr = TrainResult{Train: *t, Label: t.Label(i), Err: err}
 		}
 		out = append(out, tr)
 	}
-	return out, nil
+	return out
+}
+
+// trainResult works out train i of p into tr: its worst positions for
+// target, when not nil, and its envelope with the combinations that take
+// it, when envelope.
+func trainResult(p *storage.Project, i int, in *moving.Influence, mesh fem.Mesh, target *moving.Target, envelope bool, tr *TrainResult) error {
+	t := &p.Trains[i]
+	if err := t.Check(p.Model.Length(), i); err != nil {
+		return err
+	}
+	if target != nil {
+		hi, lo, err := in.Worst(t, mesh, *target)
+		if err != nil {
+			return err
+		}
+		tr.Target, tr.Largest, tr.Smallest = true, trainExtreme(hi), trainExtreme(lo)
+	}
+	if !envelope {
+		return nil
+	}
+	var err error
+	if tr.Envelope, err = in.Envelope(t, mesh, nil); err != nil {
+		return err
+	}
+	if tr.Worst, err = checkedWorst(&p.Model, t, tr.Envelope); err != nil {
+		return err
+	}
+	tr.Combinations, err = trainCombinations(p, i, in, mesh, tr.Envelope)
+	return err
 }
 
 // trainCombinations are the combinations of p that take train i, each
@@ -323,7 +334,7 @@ func TrainEnvelopes(p *storage.Project) ([]TrainResult, error) {
 	if err != nil {
 		return nil, err
 	}
-	return trainResults(p, in, member.Mesh(), nil, true)
+	return trainResults(p, in, member.Mesh(), nil, true), nil
 }
 
 // solveTrains are the envelopes of p's trains for the solve command, each

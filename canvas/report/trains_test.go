@@ -220,10 +220,13 @@ func TestTrainLeftOutIsWarned(t *testing.T) {
 	}
 	fits := moving.Train{Name: "trolley", Axles: []moving.Axle{{Load: 12e3}, {Load: 12e3, Spacing: 1.2}}, Step: 0.05}
 	long := moving.Train{Name: "long", Axles: []moving.Axle{{Load: 12e3}, {Load: 12e3, Spacing: 50}}, Step: 0.05}
+	// Its finite element check at the governing position overflows: it
+	// alone is left out (every train of the file was).
+	huge := moving.Train{Name: "huge", Axles: []moving.Axle{{Load: 1e300}}, Step: 0.05}
 	for _, tc := range []struct {
 		trains []moving.Train
 		warned int
-	}{{[]moving.Train{fits}, 0}, {[]moving.Train{fits, long}, 1}} {
+	}{{[]moving.Train{fits}, 0}, {[]moving.Train{fits, long}, 1}, {[]moving.Train{huge, fits}, 1}} {
 		p.Trains = tc.trains
 		src, err := Analyse(context.Background(), p)
 		if err != nil {
@@ -241,6 +244,11 @@ func TestTrainLeftOutIsWarned(t *testing.T) {
 		}
 		if warned != tc.warned || len(src.Trains) != len(tc.trains) {
 			t.Errorf("%d trains: %d warnings of a train left out, %d results; want %d and %d", len(tc.trains), warned, len(src.Trains), tc.warned, len(tc.trains))
+		}
+		for i, r := range src.Trains {
+			if r.Train.Name == "trolley" && r.Err != nil {
+				t.Errorf("train %d, the trolley that fits, left out: %v", i+1, r.Err)
+			}
 		}
 	}
 }
@@ -266,6 +274,36 @@ func TestTrainOnAxialTargetSaysNone(t *testing.T) {
 		WriteInfluenceText(&b, "runway.json", r, units.SI)
 		if got := strings.Count(b.String(), "move no axial force"); (got == len(p.Trains)) != tc.none || (got == 0) == tc.none {
 			t.Errorf("%s: %d trains said to move none, of %d:\n%s", tc.q, got, len(p.Trains), b.String())
+		}
+	}
+}
+
+// A train's line names a run of equal axles at equal spacing once, with
+// its count, and the whole train's axles and length; a short train keeps
+// every axle. The loads and spacings are invented demo data; the length is
+// their sum (Train.Length).
+func TestDescribeTrainGroupsEqualAxles(t *testing.T) {
+	long := moving.Train{Axles: []moving.Axle{{Load: 20e3}}}
+	for range 40 {
+		long.Axles = append(long.Axles, moving.Axle{Load: 5e3, Spacing: 0.25})
+	}
+	long.Axles = append(long.Axles, moving.Axle{Load: 20e3, Spacing: 1})
+	tests := []struct {
+		name  string
+		train moving.Train
+		want  string
+	}{
+		{"two axles", moving.Train{Axles: []moving.Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}},
+			"t: 42.00 kN –3.200 m– 42.00 kN; runs"},
+		{"two equal after the first", moving.Train{Axles: []moving.Axle{{Load: 6e3}, {Load: 9e3, Spacing: 1.1}, {Load: 9e3, Spacing: 1.1}}},
+			"t: 6.000 kN –1.100 m– 9.000 kN –1.100 m– 9.000 kN; runs"},
+		{"a run of forty", long,
+			"t: 20.00 kN then 40 times –0.2500 m– 5.000 kN –1.000 m– 20.00 kN; 42 axles over 11.00 m; runs"},
+	}
+	for _, tc := range tests {
+		got := describeTrain(&tc.train, "t", 20, units.SI)
+		if !strings.HasPrefix(got, tc.want) {
+			t.Errorf("%s: %q, want it to start %q", tc.name, got, tc.want)
 		}
 	}
 }

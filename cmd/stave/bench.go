@@ -15,8 +15,8 @@ func benchCommand(args []string, stdout io.Writer) error {
 	asJSON := fs.Bool("json", false, "print the measurements as JSON")
 	quick := fs.Bool("quick", false, "small sizes only: checks the harness in a second, numbers mean little")
 	pipeline := fs.Bool("pipeline", false, "only the pipeline stage by stage and the point-load table")
-	if err := fs.Parse(args); err != nil {
-		return usageError{"bench: " + err.Error()}
+	if err := parseFlags(fs, args, stdout, ""); err != nil {
+		return err
 	}
 	if fs.NArg() > 0 {
 		return usageError{"bench takes no file"}

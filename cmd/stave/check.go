@@ -31,7 +31,7 @@ func checkCommand(args []string, stdout, stderr io.Writer) error {
 	asJSON := fs.Bool("json", false, "print the lines and the summary as JSON")
 	asCSV := fs.Bool("csv", false, "print the lines as CSV")
 	workers := fs.Int("workers", 0, "members analysed at once (default: one per core)")
-	names, err := parseFiles(fs, args)
+	names, err := parseFiles(fs, args, stdout)
 	if err != nil {
 		return err
 	}
@@ -86,17 +86,18 @@ func checkCommand(args []string, stdout, stderr io.Writer) error {
 	case batch.Refused:
 		return statusError{1, fmt.Sprintf("%d of %d members refused (%d failed a check): their lines say why", sum.Refused, sum.Members, sum.Failed)}
 	case batch.Failed:
-		return statusError{3, fmt.Sprintf("%d of %d members failed a check: their lines say which", sum.Failed, sum.Members)}
+		return inDocument(statusError{3, fmt.Sprintf("%d of %d members failed a check: their lines say which", sum.Failed, sum.Members)}, *asJSON)
 	}
 	return nil
 }
 
-// parseFiles parses flags that may come before, between or after file names.
-func parseFiles(fs *flag.FlagSet, args []string) ([]string, error) {
+// parseFiles parses flags that may come before, between or after file
+// names; with --help it prints the flags and returns helpShown.
+func parseFiles(fs *flag.FlagSet, args []string, stdout io.Writer) ([]string, error) {
 	var files []string
 	for {
-		if err := fs.Parse(args); err != nil {
-			return nil, usageError{fmt.Sprintf("%s: %v", fs.Name(), err)}
+		if err := parseFlags(fs, args, stdout, "FILE... | DIR"); err != nil {
+			return nil, err
 		}
 		if fs.NArg() == 0 {
 			return files, nil

@@ -27,6 +27,9 @@ func convergeCommand(args []string, stdout io.Writer) error {
 	if *maxPer < 1 {
 		return usageError{fmt.Sprintf("--max must be at least 1, got %d", *maxPer)}
 	}
+	if set(fs, "target") && !(*target > 0 && *target < 1) {
+		return usageError{fmt.Sprintf("--target %g: give the relative energy error to reach, above 0 and below 1 (0.01 is 1 %%)", *target)}
+	}
 	p, err := storage.Load(path)
 	if err != nil {
 		return modelError{err}
@@ -56,5 +59,5 @@ func convergeCommand(args []string, stdout io.Writer) error {
 	} else {
 		report.WriteConvergenceText(stdout, path, table, versus, findings)
 	}
-	return failures(path, findings)
+	return inDocument(failures(path, findings), *asJSON)
 }

@@ -24,9 +24,9 @@ func exportCommand(args []string, stdout io.Writer) error {
 	sheet := fs.Bool("sheet", false, "write the one-page calculation sheet (with --out NAME.pdf or NAME.png)")
 	multiples := fs.Bool("multiples", false, "write the member on 1, 2, 4 and 8 elements per stretch, one drawing under the other (with --out NAME.png or NAME.pdf)")
 	elements := fs.Int("elements", 0, "solve on N elements instead of the file's mesh (spread over the stretches by length)")
-	dpi := fs.Float64("dpi", 0, "pixel density of PNG output (default 96)")
-	width := fs.Float64("width", 0, "drawing width in points (default 1200)")
-	height := fs.Float64("height", 0, "drawing height in points (default 800)")
+	dpi := fs.Float64("dpi", 0, "pixel density of PNG output, 1 to 20,000 (default 96)")
+	width := fs.Float64("width", 0, "drawing width in points, 1 to 20,000 (default 1200)")
+	height := fs.Float64("height", 0, "drawing height in points, 1 to 20,000 (default 800)")
 	points := fs.Int("points", 0, "CSV only: sample each element at N+1 evenly spaced points, both ends included (default 4; fewer from 20,000 elements on)")
 	system := fs.String("units", "", "unit system of the output: SI or US (default: the file's display units)")
 	show := fs.String("show", "", "a model with load cases: draw one case or combination by NAME, or the envelope (the default)")
@@ -37,8 +37,8 @@ func exportCommand(args []string, stdout io.Writer) error {
 	if *out == "" {
 		return usageError{"export needs --out NAME.png, NAME.svg, NAME.pdf or NAME.csv"}
 	}
-	if *dpi < 0 || *width < 0 || *height < 0 {
-		return usageError{"--dpi, --width and --height must be positive"}
+	if err := report.CheckSize(*width, *height, *dpi); err != nil {
+		return usageError{fmt.Sprintf("--width, --height, --dpi: %v", err)}
 	}
 	kind, err := exportKind(*out, *sheet)
 	if err != nil {

@@ -36,6 +36,9 @@ func influenceCommand(args []string, stdout io.Writer) error {
 	if err != nil {
 		return err
 	}
+	if *train < 1 {
+		return usageError{fmt.Sprintf("--train %d: count the trains from 1 along the file", *train)}
+	}
 	if *points < 1 || *points > 100000 {
 		return usageError{fmt.Sprintf("--points must be between 1 and 100000, got %d", *points)}
 	}

@@ -197,6 +197,41 @@ func TestInfluenceWithoutLoadsOfItsOwn(t *testing.T) {
 	}
 }
 
+// Where the shear force's line jumps, at the point read, the load there
+// stands on the side of the section away from the one read, in the exact
+// line as in the finite element one. The runway is two equal spans of
+// 6 m: a load P at the middle of the first leaves R1 = 13P/32 at the end
+// support (continuous beam of two equal spans, load at the centre of one
+// span: AISC Manual, beam diagrams, from memory), so just left of it
+// V = 13/32 and just right 13/32 − 1 = −19/32 per newton acting down. A
+// load on the middle support goes into it: V just right of it is 0. The
+// exact line read the load as past the section on the right: 13/32 and 1.
+func TestInfluenceCommandValueAtTheJump(t *testing.T) {
+	for _, c := range []struct {
+		at, side string
+		s, want  float64
+	}{
+		{"3", "left", 3, 13.0 / 32},
+		{"3", "right", 3, -19.0 / 32},
+		{"6", "right", 6, 0},
+	} {
+		got := influenceRun(t, "../../testdata/moving/runway.json", "--quantity", "V", "--at", c.at, "--side", c.side, "--points", "4")
+		found := false
+		for _, sm := range got.Line.Samples {
+			if sm.S != c.s {
+				continue
+			}
+			found = true
+			if math.Abs(sm.Exact-c.want) > 1e-12 || sm.FE == nil || math.Abs(*sm.FE-c.want) > 1e-9 {
+				t.Errorf("V at %s m, %s side, load at %g m: exact %.15g, FE %v; want %.15g", c.at, c.side, c.s, sm.Exact, sm.FE, c.want)
+			}
+		}
+		if !found {
+			t.Errorf("V at %s m: no sample with the load at %g m", c.at, c.s)
+		}
+	}
+}
+
 func TestInfluenceCommandMisuse(t *testing.T) {
 	for _, c := range []struct {
 		args []string
@@ -209,6 +244,10 @@ func TestInfluenceCommandMisuse(t *testing.T) {
 		{[]string{"../../testdata/demo.json", "--quantity", "V", "--at", "1", "--side", "up"}, 2, "use left or right"},
 		{[]string{"../../testdata/demo.json", "--quantity", "reaction"}, 2, "needs --support"},
 		{[]string{"../../testdata/demo.json", "--quantity", "M", "--at", "9"}, 1, "not on the member"},
+		// Just past the end, every digit: it said "x = 5.5 m is not on the member (0 to 5.5 m)".
+		{[]string{"../../testdata/demo.json", "--quantity", "M", "--at", "5.5000000001"}, 1, "x = 5.5000000001 m is not on the member (0 to 5.5 m)"},
+		// Trains count from 1: --train 0 was "there is no train 0: the file has 2", exit 1.
+		{[]string{"../../testdata/moving/runway.json", "--quantity", "M", "--at", "1", "--train", "0", "--out", "x.png"}, 2, "--train 0: count the trains from 1"},
 		{[]string{"../../testdata/demo.json", "--quantity", "sigma_combined", "--at", "1"}, 1, "not linear"},
 		{[]string{"../../testdata/demo.json", "--quantity", "reaction", "--support", "2", "--motion", "rotation"}, 1, "does not hold the rotation"},
 	} {

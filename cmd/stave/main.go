@@ -51,9 +51,6 @@ func (e modelError) Unwrap() error { return e.err }
 type checkFailed struct {
 	path     string
 	failures []string
-	// quiet leaves the message out where the output itself says so (the
-	// results document's check_failed and warnings).
-	quiet bool
 }
 
 func (e checkFailed) Error() string {
@@ -74,6 +71,25 @@ func failures(path string, fs []analysis.Finding) error {
 		}
 	}
 	return checkFailed{path: path, failures: out}
+}
+
+// documented ends a command with status 3 when the JSON document it wrote
+// says why (check_failed and the warnings, or the batch's worst_status):
+// standard error stays empty.
+type documented struct{ err error }
+
+func (e documented) Error() string { return e.err.Error() }
+func (e documented) Unwrap() error { return e.err }
+
+// inDocument is err as documented when a JSON document was written and err
+// is a failed check (exit status 3), else err.
+func inDocument(err error, asJSON bool) error {
+	var cf checkFailed
+	var se statusError
+	if asJSON && (errors.As(err, &cf) || errors.As(err, &se) && se.status == 3) {
+		return documented{err}
+	}
+	return err
 }
 
 // helpShown says a command printed its flags because --help asked (exit status 0).
@@ -111,7 +127,7 @@ func run(args []string, stdout, stderr io.Writer) int {
 	if err == nil || errors.Is(err, helpShown) {
 		return 0
 	}
-	if cf, ok := err.(checkFailed); ok && cf.quiet {
+	if _, ok := err.(documented); ok {
 		return 3
 	}
 	fmt.Fprintln(stderr, "stave:", err)
@@ -149,8 +165,7 @@ func dispatch(args []string, stdout io.Writer) error {
 	case "bench":
 		return benchCommand(args[1:], stdout)
 	case "version", "--version":
-		fmt.Fprintln(stdout, "stave", version)
-		return nil
+		return versionCommand(args[1:], stdout)
 	case "help", "-h", "--help":
 		fmt.Fprint(stdout, usage)
 		return nil
@@ -159,4 +174,18 @@ func dispatch(args []string, stdout io.Writer) error {
 		return openWindow(args[0])
 	}
 	return usageError{fmt.Sprintf("unknown command %q", args[0])}
+}
+
+// versionCommand prints the release; it takes no file (a stray argument
+// was ignored).
+func versionCommand(args []string, stdout io.Writer) error {
+	fs := newFlagSet("version")
+	if err := parseFlags(fs, args, stdout, ""); err != nil {
+		return err
+	}
+	if fs.NArg() > 0 {
+		return usageError{fmt.Sprintf("version takes no argument, got %q", fs.Arg(0))}
+	}
+	fmt.Fprintln(stdout, "stave", version)
+	return nil
 }

@@ -6,6 +6,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"strings"
 
 	"stave/canvas/report"
 	"stave/fem/analysis"
@@ -89,12 +90,7 @@ func solveCommand(args []string, stdout io.Writer) error {
 	if a.Err != nil {
 		return modelError{fmt.Errorf("%s: %w", path, a.Err)}
 	}
-	err = failures(path, src.Findings)
-	if cf, ok := err.(checkFailed); ok && *asJSON {
-		cf.quiet = true // the document says so: check_failed and its warnings
-		return cf
-	}
-	return err
+	return inDocument(failures(path, src.Findings), *asJSON)
 }
 
 // newFlagSet makes a flag set that reports misuse as an error, not an exit.
@@ -104,19 +100,31 @@ func newFlagSet(name string) *flag.FlagSet {
 	return fs
 }
 
+// parseFlags parses args with fs. With --help it prints the command's
+// usage, its operands after the flags, and its flags to stdout and returns
+// helpShown; misuse is a usageError.
+func parseFlags(fs *flag.FlagSet, args []string, stdout io.Writer, operands string) error {
+	err := fs.Parse(args)
+	switch {
+	case errors.Is(err, flag.ErrHelp):
+		fmt.Fprintf(stdout, "usage: %s\n\nflags:\n", strings.TrimSpace("stave "+fs.Name()+" [flags] "+operands))
+		fs.SetOutput(stdout)
+		fs.PrintDefaults()
+		return helpShown
+	case err != nil:
+		return usageError{fmt.Sprintf("%s: %v", fs.Name(), err)}
+	}
+	return nil
+}
+
 // parseOneFile parses flags that may come before or after a single file
 // name. With --help it prints the command's flags to stdout and returns
 // helpShown.
 func parseOneFile(fs *flag.FlagSet, args []string, stdout io.Writer) (string, error) {
 	var files []string
 	for {
-		if err := fs.Parse(args); errors.Is(err, flag.ErrHelp) {
-			fmt.Fprintf(stdout, "usage: stave %s [flags] FILE\n\nflags:\n", fs.Name())
-			fs.SetOutput(stdout)
-			fs.PrintDefaults()
-			return "", helpShown
-		} else if err != nil {
-			return "", usageError{fmt.Sprintf("%s: %v", fs.Name(), err)}
+		if err := parseFlags(fs, args, stdout, "FILE"); err != nil {
+			return "", err
 		}
 		if fs.NArg() == 0 {
 			break

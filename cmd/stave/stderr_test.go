@@ -63,3 +63,32 @@ func withoutLocale(env []string) []string {
 	}
 	return out
 }
+
+// A command that writes a JSON document whose check failed exits 3 with
+// nothing on standard error: the document says why (check_failed and the
+// warnings, or the batch's worst_status), as docs/json.md says of solve.
+// converge --json and check --json printed the failures on standard error
+// as well. Without --json the message stays.
+func TestFailedCheckInADocumentKeepsStandardErrorEmpty(t *testing.T) {
+	failing := "../../testdata/cantilever_tip_load.json" // 133 mm tip deflection, beyond length/180
+	for _, c := range []struct {
+		args  []string
+		quiet bool
+	}{
+		{[]string{"solve", "--json", failing}, true},
+		{[]string{"converge", "--json", "--max", "2", failing}, true},
+		{[]string{"check", "--json", failing}, true},
+		{[]string{"solve", failing}, false},
+		{[]string{"converge", "--max", "2", failing}, false},
+		{[]string{"check", failing}, false},
+		{[]string{"check", "--csv", failing}, false},
+	} {
+		code, _, stderr := runStave(t, c.args...)
+		if code != 3 {
+			t.Errorf("stave %v: exit %d, want 3; stderr %s", c.args, code, stderr)
+		}
+		if quiet := stderr == ""; quiet != c.quiet {
+			t.Errorf("stave %v: standard error %q, want it empty: %v", c.args, stderr, c.quiet)
+		}
+	}
+}

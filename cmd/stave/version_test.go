@@ -44,3 +44,23 @@ func detailsValue(toml, key string) (string, error) {
 	}
 	return "", fmt.Errorf("FyneApp.toml has no %s in [Details]", key)
 }
+
+// version prints the release alone; a stray argument is misuse (it was
+// ignored) and --help shows its usage.
+func TestVersionArguments(t *testing.T) {
+	for _, c := range []struct {
+		args []string
+		code int
+		out  string
+	}{
+		{[]string{"version"}, 0, "stave " + version + "\n"},
+		{[]string{"--version"}, 0, "stave " + version + "\n"},
+		{[]string{"version", "--help"}, 0, "usage: stave version [flags]"},
+		{[]string{"version", "x.json"}, 2, ""},
+	} {
+		code, out, stderr := runStave(t, c.args...)
+		if code != c.code || !strings.HasPrefix(out, c.out) || (c.code == 2) != strings.Contains(stderr, "version takes no argument") {
+			t.Errorf("stave %v: exit %d, stdout %q, stderr %q; want exit %d, stdout from %q", c.args, code, out, stderr, c.code, c.out)
+		}
+	}
+}

@@ -18,14 +18,18 @@ type extreme struct {
 	at    int32
 }
 
+// most takes v at position at where it is the first or beyond the largest
+// so far by more than a tie (fem.Beyond): of equal effects, round-off
+// apart, the first position (forward before backward, then along the run).
 func (e *extreme) most(v float64, at int32) {
-	if e.at < 0 || v > e.value {
+	if e.at < 0 || fem.Beyond(v, e.value) {
 		e.value, e.at = v, at
 	}
 }
 
+// least is most for the smallest.
 func (e *extreme) least(v float64, at int32) {
-	if e.at < 0 || v < e.value {
+	if e.at < 0 || fem.Beyond(e.value, v) {
 		e.value, e.at = v, at
 	}
 }
@@ -55,6 +59,7 @@ func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
 	r.places = places
 	ends := [2]float64{r.u0, r.u1}
 	var f [maxReaders]poly
+	summed := -1 // stretches since f was summed afresh; −1 before the first
 	for i := 1; i < len(br); i++ {
 		a, b := br[i-1], br[i]
 		if b < a || (b == a && r.n > 1) {
@@ -69,24 +74,25 @@ func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
 			continue
 		}
 		mid := 0.5 * (a + b)
-		for i := range n {
-			f[i] = poly{}
+		// f holds every axle's term on the piece it stood on at the last
+		// stretch evaluated: a long train moves a few axles to another
+		// piece per stretch, so f takes their change alone (summing every
+		// axle on every stretch cost the square of the axles), and is
+		// summed afresh every resumEvery stretches, against drift, and
+		// always for a short train.
+		full := summed < 0 || summed == resumEvery || len(r.axles) <= shortTrain
+		if full {
+			f = [maxReaders]poly{}
+			summed = 0
 		}
+		summed++
 		for k, ax := range r.axles {
-			p := ls.advance(&places[k], mid+ax.offset)
-			g := r.axleTerms[(k*ls.pieces()+p)*n:]
-			for i := range n {
-				f[i].add(ax.load, &g[i])
-			}
+			move(ls, f[:n], &places[k], mid+ax.offset, ax.load, r.axleTerms[k*ls.pieces()*n:], full)
 		}
 		if r.uniform {
 			for e, off := range ends {
-				p := ls.advance(&places[len(r.axles)+e], mid+off)
-				g := r.uniformTerms[(e*ls.pieces()+p)*n:]
 				sign := float64(2*e - 1) // the integral to the far end less that to the near one
-				for i := range n {
-					f[i].add(sign*r.q, &g[i])
-				}
+				move(ls, f[:n], &places[len(r.axles)+e], mid+off, sign*r.q, r.uniformTerms[e*ls.pieces()*n:], full)
 			}
 		}
 		for i := range n {
@@ -106,6 +112,36 @@ func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
 	}
 	if len(jumps) > 0 {
 		r.scanJumps(ls, hi, lo, jumps)
+	}
+}
+
+// A train of at most shortTrain axles is summed afresh on every stretch of
+// positions; a longer one every resumEvery stretches (see scan).
+const (
+	shortTrain = 8
+	resumEvery = 32
+)
+
+// move advances *place to the piece of ls holding sigma, where a load c
+// stands whose terms per piece are terms (len(f) lines a piece), and adds
+// c times its terms there to f; unless full, f already holds its terms on
+// the piece it leaves, which it trades for the new (nothing when it stays).
+func move(ls *lines, f []poly, place *int, sigma, c float64, terms []poly, full bool) {
+	n := len(f)
+	old := *place
+	p := ls.advance(place, sigma)
+	if !full && p == old {
+		return
+	}
+	g := terms[p*n : p*n+n]
+	for i := range f {
+		f[i].add(c, &g[i])
+	}
+	if !full {
+		g0 := terms[old*n : old*n+n]
+		for i := range f {
+			f[i].add(-c, &g0[i])
+		}
 	}
 }
 
@@ -377,10 +413,10 @@ func (e *Envelope) Worst(q fem.Quantity) (hi, lo Extreme) {
 	}
 	best, least := 0, 0
 	for s := range e.Stations {
-		if e.Max[k][s] > e.Max[k][best] {
+		if fem.Beyond(e.Max[k][s], e.Max[k][best]) {
 			best = s
 		}
-		if e.Min[k][s] < e.Min[k][least] {
+		if fem.Beyond(e.Min[k][least], e.Min[k][s]) {
 			least = s
 		}
 	}
@@ -646,10 +682,10 @@ func (in *Influence) envelopeStations(s *sweeps, e *Envelope, from, to int) {
 				if q == 4 {
 					h.value, l.value = h.value*stress, l.value*stress
 				}
-				if first || h.value > e.Max[q][st] {
+				if first || fem.Beyond(h.value, e.Max[q][st]) {
 					e.Max[q][st], e.MaxAt[q][st] = h.value, h.at
 				}
-				if first || l.value < e.Min[q][st] {
+				if first || fem.Beyond(e.Min[q][st], l.value) {
 					e.Min[q][st], e.MinAt[q][st] = l.value, l.at
 				}
 			}

@@ -183,7 +183,8 @@ func (in *Influence) reader(s *sweeps, t Target) (reader, error) {
 		return s.reactionReader(s.keyIndex(sup.X), t.Motion), nil
 	}
 	if !(t.X >= 0 && t.X <= m.Length()) {
-		return reader{}, fmt.Errorf("x = %s m is not on the member (0 to %s m): give a point on it", trim(t.X), trim(m.Length()))
+		// Every digit of x: 12.0000000001 is not 12.
+		return reader{}, fmt.Errorf("x = %s m is not on the member (0 to %s m): give a point on it", strconv.FormatFloat(t.X, 'g', -1, 64), trim(m.Length()))
 	}
 	row, scale, ok := s.quantityRow(t.Quantity)
 	if !ok {

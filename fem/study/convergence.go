@@ -94,6 +94,13 @@ func Convergence(ctx context.Context, m *fem.Model, maxPerStretch int) (Table, e
 	if err != nil {
 		return Table{}, err
 	}
+	finest := 1
+	for finest <= maxPerStretch/2 {
+		finest *= 2
+	}
+	if err := fits(m, finest, len(keys)-1); err != nil {
+		return Table{}, fmt.Errorf("convergence study, the finest mesh of %d elements per stretch: %w", finest, err)
+	}
 	var t Table
 	for k := 1; k <= maxPerStretch; k *= 2 {
 		if err := ctx.Err(); err != nil {
@@ -211,6 +218,19 @@ func Subdivide(nodes []float64, k int) []float64 {
 		out = append(out, b)
 	}
 	return out
+}
+
+// fits refuses k elements on each of n stretches when the analysis of
+// that mesh would not fit in memory, as the loader refuses a file that
+// asks for it: a study up to 10⁹ elements per stretch ran until memory
+// ran out.
+func fits(m *fem.Model, k, n int) error {
+	um := *m
+	um.Mesh = fem.MeshSettings{Elements: math.MaxInt, BarOrder: m.Mesh.BarOrder}
+	if k <= math.MaxInt/n {
+		um.Mesh.Elements = k * n
+	}
+	return um.Validate()
 }
 
 func solveOn(m *fem.Model, nodes []float64) (*fem.Solution, error) {

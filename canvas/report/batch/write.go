@@ -103,16 +103,24 @@ func dash(s string) string {
 	return s
 }
 
+// members counts n members in words: "1 member", "12 members".
+func members(n int) string {
+	if n == 1 {
+		return "1 member"
+	}
+	return fmt.Sprintf("%d members", n)
+}
+
 func (t *textWriter) Close(s Summary) error {
 	bw := bufio.NewWriter(t.w)
-	fmt.Fprintf(bw, "Stave %s: check of %d members\n\n", report.Version, s.Members)
+	fmt.Fprintf(bw, "Stave %s: check of %s\n\n", report.Version, members(s.Members))
 	tw := tabwriter.NewWriter(bw, 2, 4, 2, ' ', 0)
 	fmt.Fprintln(tw, "file\tmember\tstatus\tgoverning check\tutilisation\tdeflection\twarnings")
 	for _, r := range t.rows {
 		fmt.Fprintln(tw, r)
 	}
 	tw.Flush()
-	fmt.Fprintf(bw, "\n%d members: %d ok, %d caution, %d failed a check, %d refused\n", s.Members, s.OK, s.Caution, s.Failed, s.Refused)
+	fmt.Fprintf(bw, "\n%s: %d ok, %d caution, %d failed a check, %d refused\n", members(s.Members), s.OK, s.Caution, s.Failed, s.Refused)
 	if h := s.Highest; h != nil {
 		fmt.Fprintf(bw, "Highest utilisation: %s, %s, in %s\n", utilisationText(h.Utilisation), h.Name, h.Who)
 	}

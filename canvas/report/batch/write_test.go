@@ -192,3 +192,15 @@ func TestUtilisationText(t *testing.T) {
 		}
 	}
 }
+
+// The text counts members in words: a batch of one said "check of 1 members".
+func TestMembersInWords(t *testing.T) {
+	for _, c := range []struct {
+		n    int
+		want string
+	}{{0, "0 members"}, {1, "1 member"}, {2, "2 members"}, {1000, "1000 members"}} {
+		if got := members(c.n); got != c.want {
+			t.Errorf("members(%d) = %q, want %q", c.n, got, c.want)
+		}
+	}
+}
