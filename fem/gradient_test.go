@@ -216,17 +216,7 @@ func TestTemperatureDifferenceInCombinations(t *testing.T) {
 		Combinations: []Combination{{Name: "ULS", Kind: Strength, Factors: []CaseFactor{{Case: 0, Factor: 1.35}, {Case: 1, Factor: 1.5}}}},
 		Mesh:         MeshSettings{Elements: 8},
 	}
-	p, err := Prepare(m)
-	if err != nil {
-		t.Fatal(err)
-	}
-	cs, err := p.SolveCombinations(p.Mesh())
-	if err != nil {
-		t.Fatal(err)
-	}
-	if err := cs.SolveExact(p); err != nil {
-		t.Fatal(err)
-	}
+	_, cs := solveCombinations(t, m)
 	fe, err := cs.Solution(0)
 	if err != nil {
 		t.Fatal(err)

@@ -78,14 +78,7 @@ func TestEnvelopeIsExact(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	src, err := Analyse(context.Background(), p)
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := CasesResults(src.Analysis)
-	if err != nil {
-		t.Fatal(err)
-	}
+	r := casesResults(t, p)
 	if r.Envelope.Solution != "exact" {
 		t.Errorf("envelope of the %q solution, want exact", r.Envelope.Solution)
 	}
@@ -128,14 +121,7 @@ func TestCaseTakingTemperatureDifferences(t *testing.T) {
 		},
 		Combinations: []fem.Combination{{Name: "C", Kind: fem.Strength, Factors: []fem.CaseFactor{{Case: 1, Factor: 1.5}}}},
 	}}
-	src, err := Analyse(context.Background(), p)
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := CasesResults(src.Analysis)
-	if err != nil {
-		t.Fatal(err)
-	}
+	r := casesResults(t, p)
 	if r.Cases[0].TemperatureDifferences || !r.Cases[1].TemperatureDifferences {
 		t.Errorf("cases take temperature differences: %v and %v, want false and true", r.Cases[0].TemperatureDifferences, r.Cases[1].TemperatureDifferences)
 	}
@@ -149,4 +135,18 @@ func TestCaseTakingTemperatureDifferences(t *testing.T) {
 	}) {
 		t.Errorf("the text does not say case sun takes the temperature differences:\n%s", text.String())
 	}
+}
+
+// casesResults analyses p and returns its cases' results.
+func casesResults(t *testing.T, p *storage.Project) *CasesJSON {
+	t.Helper()
+	src, err := Analyse(context.Background(), p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := CasesResults(src.Analysis)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return r
 }
