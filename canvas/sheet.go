@@ -238,10 +238,25 @@ func (sh *sheet) modelTable(m *fem.Model) {
 			also = append(also, "allowable stress "+f(units.Stress, s.Material.Allowable))
 		}
 		if s.TemperatureDifference != 0 {
-			also = append(also, "bottom fibre warmer than the top by "+f(units.TemperatureChange, s.TemperatureDifference))
+			d := "bottom fibre warmer than the top by " + f(units.TemperatureChange, s.TemperatureDifference)
+			if s.Section.Depth > 0 {
+				d += " over a depth of " + f(units.Dimension, s.Section.Depth)
+			}
+			also = append(also, d)
 		}
 		if s.ShearDeformation {
-			also = append(also, "shear deformation (Timoshenko beam)")
+			d := "shear deformation (Timoshenko beam), "
+			if s.Section.ShearArea > 0 {
+				d += "As " + f(units.Area, s.Section.ShearArea)
+			} else {
+				d += "κ " + units.FormatNumber(s.Section.ShearCoefficient)
+			}
+			if s.Material.ShearModulus > 0 {
+				d += ", G " + f(units.Modulus, s.Material.ShearModulus)
+			} else {
+				d += ", ν " + units.FormatNumber(s.Material.Poisson)
+			}
+			also = append(also, d)
 		}
 		if len(also) > 0 {
 			rows = append(rows, [2]string{"", strings.Join(also, "; ")})
@@ -360,7 +375,11 @@ func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 	// The ground's resultant, at its line of action, and the stretch it
 	// is spread over where a support has its moment.
 	for _, g := range sum.Foundations {
-		cols := []string{fmt.Sprintf("foundation %d (ground)", g.Foundation), f(units.Position, g.Reaction.Centre()), "—", "—",
+		at := "a couple"
+		if centre, _, ok := g.Centre(); ok {
+			at = f(units.Position, centre)
+		}
+		cols := []string{fmt.Sprintf("foundation %d (ground)", g.Foundation), at, "—", "—",
 			"spread over " + f(units.Position, g.Start) + " to " + f(units.Position, g.End)}
 		if g.Holds[fem.Axial] {
 			cols[2] = value(units.Force, g.Reaction.Force[0], g.FE.Force[0])

@@ -53,7 +53,7 @@ func TestSheetShowsGroundAndHinges(t *testing.T) {
 		t.Fatalf("the ground carries %g N at %g m: want up to the 100 kN load, on the foundation", g.Reaction.Force[1], g.Reaction.Centre())
 	}
 	for _, want := range []string{
-		"bottom fibre warmer than the top by 20.00 K; shear deformation (Timoshenko beam)",
+		"thermal expansion 1.200e-05 1/K; bottom fibre warmer than the top by 20.00 K; shear deformation (Timoshenko beam), κ 0.4000, ν 0.3000",
 		"at 3.000 m: rotational spring 5000 kN·m/rad",
 		"at 5.000 m: carries no moment",
 		"4.000 m to 10.00 m; modulus 24000 kN/m² across",
@@ -148,5 +148,28 @@ func TestSheetGivesTheMaterialValuesTheLoadsUse(t *testing.T) {
 				}
 			}
 		})
+	}
+}
+
+// The model table gives the depth a temperature difference acts over when
+// the file gives one (not twice the fibre distance), and the shear
+// properties as the file gives them: the shear area and modulus, or κ and
+// ν (TestSheetShowsGroundAndHinges); a checker reproduces a thermal or a
+// shear result from them.
+func TestSheetShowsDepthAndShearInputs(t *testing.T) {
+	steel := fem.Material{Elastic: 200e9, ThermalExpansion: 12e-6, ShearModulus: 80e9}
+	sec := fem.Section{Area: 5e-3, SecondMoment: 8e-5, FibreDistance: 0.15, Depth: 0.4, ShearArea: 2e-3}
+	m := &fem.Model{Segments: []fem.Segment{{Start: 0, End: 6, Section: sec, Material: steel, TemperatureDifference: 10, ShearDeformation: true}},
+		Supports: []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 6, Kind: fem.Fixed}}}
+	page := buildSheet(SheetInput{Input: solved(t, m), Notes: SheetNotes{Version: "test"}})
+	var lines []string
+	for _, it := range page.Items {
+		if it.Kind == Text {
+			lines = append(lines, it.Text)
+		}
+	}
+	const want = "bottom fibre warmer than the top by 10.00 K over a depth of 400.0 mm; shear deformation (Timoshenko beam), As 2000 mm², G 80.00 GPa"
+	if all := strings.Join(lines, "\n"); !strings.Contains(all, want) {
+		t.Errorf("the sheet should say %q:\n%s", want, all)
 	}
 }

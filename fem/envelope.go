@@ -56,7 +56,7 @@ func (m *Model) EnvelopeCombinations() []Combination {
 
 // CombineLoads is Σ factors[i]·sets[i] for load sets gathered on the same
 // key points: line loads, point loads (listed one by one, scaled),
-// temperature changes and settlements.
+// temperature changes and differences, and settlements.
 func CombineLoads(sets []Loads, factors []float64) (Loads, error) {
 	if len(sets) == 0 || len(sets) != len(factors) {
 		return Loads{}, fmt.Errorf("fem: %d load sets for %d factors: give one factor per load set", len(sets), len(factors))
@@ -86,6 +86,14 @@ func CombineLoads(sets []Loads, factors []float64) (Loads, error) {
 			out.Points = append(out.Points, PointLoad{X: p.X, Axial: f * p.Axial, Transverse: f * p.Transverse, Moment: f * p.Moment})
 		}
 		out.TemperatureChange += f * l.TemperatureChange
+		if l.TemperatureDifference != nil {
+			if out.TemperatureDifference == nil {
+				out.TemperatureDifference = make([]float64, len(l.TemperatureDifference))
+			}
+			for i, dt := range l.TemperatureDifference {
+				out.TemperatureDifference[i] += f * dt
+			}
+		}
 		for i, s := range l.Settlement {
 			for d := range s {
 				out.Settlement[i][d] += f * s[d]

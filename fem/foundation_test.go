@@ -81,6 +81,117 @@ func TestLongBeamOnFoundationPointLoad(t *testing.T) {
 	}
 }
 
+// More of Hetényi's closed forms (Beams on Elastic Foundation, 1946; also
+// Roark's Formulas for Stress and Strain, beams on elastic foundations;
+// from memory), β = (k/4EI)^¼:
+//   - a free beam of length L with a central load P: under it
+//     w = −Pβ/(2k)·(cosh βL + cos βL + 2)/(sinh βL + sin βL) and
+//     M = P/(4β)·(cosh βL − cos βL)/(sinh βL + sin βL), from nearly rigid
+//     (βL = 0.3, w → −P/(kL), M → PL/8) to long (βL = 6), across both bases
+//     of the exact solution (series up to λ = 2 per stretch, decaying beyond);
+//   - a semi-infinite beam (βL = 34) under a load P at its free end:
+//     w(0) = −2Pβ/k, θ(0) = 2Pβ²/k; under a counter-clockwise moment C
+//     there: w(0) = −2Cβ²/k, θ(0) = 4Cβ³/k;
+//   - a foundation under part of the member: the same beam with an
+//     overhang c off the foundation, loaded at its tip: the overhang hands
+//     the beam P and P·c, and the tip sinks by w(c) − θ(c)·c − Pc³/(3EI);
+//   - foundations with supports: a long beam held across at its middle
+//     and loaded at a from there takes R = −P·e^(−βa)·(cos βa + sin βa) at
+//     the support (the load's deflection there cancelled by R's); the same
+//     support settling by Δ with no load takes R = 2kΔ/β, and the moment
+//     over it is −R/(4β).
+func TestHetenyiClosedForms(t *testing.T) {
+	const k, P, C, c, a, settle = 6.4e6, -8e4, 3e4, 2.0, 2.0, -5e-3
+	ei := testE * testI
+	beta := math.Sqrt(math.Sqrt(k / (4 * ei)))
+	type want struct {
+		what      string
+		got, want float64
+	}
+	type row struct {
+		name  string
+		model func() *Model
+		check func(e *Exact) []want
+	}
+	var rows []row
+	for _, bl := range []float64{0.3, 1.5, 3, 6} {
+		L := bl / beta
+		rows = append(rows, row{fmt.Sprintf("free beam, βL = %g, central load", bl), func() *Model {
+			m := groundModel(L, k)
+			m.PointLoads = []PointLoad{{X: L / 2, Transverse: P}}
+			return m
+		}, func(e *Exact) []want {
+			f := e.At(L/2, Right)
+			d := math.Sinh(bl) + math.Sin(bl)
+			return []want{{"w under the load", f.Deflection, P * beta / (2 * k) * (math.Cosh(bl) + math.Cos(bl) + 2) / d},
+				{"M under the load", f.BendingMoment, -P / (4 * beta) * (math.Cosh(bl) - math.Cos(bl)) / d}}
+		}})
+	}
+	long := 34 / beta
+	rows = append(rows, []row{
+		{"semi-infinite beam, load at its end", func() *Model {
+			m := groundModel(long, k)
+			m.PointLoads = []PointLoad{{X: 0, Transverse: P}}
+			return m
+		}, func(e *Exact) []want {
+			f := e.At(0, Right)
+			return []want{{"w(0)", f.Deflection, 2 * P * beta / k}, {"θ(0)", f.Rotation, -2 * P * beta * beta / k}}
+		}},
+		{"semi-infinite beam, moment at its end", func() *Model {
+			m := groundModel(long, k)
+			m.PointLoads = []PointLoad{{X: 0, Moment: C}}
+			return m
+		}, func(e *Exact) []want {
+			f := e.At(0, Right)
+			return []want{{"w(0)", f.Deflection, -2 * C * beta * beta / k}, {"θ(0)", f.Rotation, 4 * C * beta * beta * beta / k}}
+		}},
+		{"overhang off the foundation, load at its tip", func() *Model {
+			m := groundModel(c+long, k)
+			m.Foundations[0].Start = c
+			m.PointLoads = []PointLoad{{X: 0, Transverse: P}}
+			return m
+		}, func(e *Exact) []want {
+			// At the foundation's start the overhang hands the beam P down
+			// and the moment −P·c counter-clockwise (P < 0 is down).
+			wc := 2*P*beta/k + 2*P*c*beta*beta/k
+			tc := -2*P*beta*beta/k - 4*P*c*beta*beta*beta/k
+			return []want{{"w at the foundation's start", e.At(c, Right).Deflection, wc},
+				{"w at the tip", e.At(0, Right).Deflection, wc - tc*c + P*c*c*c/(3*ei)}}
+		}},
+		{"support at the middle, load beside it", func() *Model {
+			m := groundModel(long, k)
+			m.Supports[0].Kind = Pinned
+			m.PointLoads = []PointLoad{{X: long/2 + a, Transverse: P}}
+			return m
+		}, func(e *Exact) []want {
+			return []want{{"support's reaction", e.Reactions()[0].Force[Transverse], -P * math.Exp(-beta*a) * (math.Cos(beta*a) + math.Sin(beta*a))},
+				{"ground's resultant", e.Foundations()[0].Force[Transverse], -P * (1 - math.Exp(-beta*a)*(math.Cos(beta*a)+math.Sin(beta*a)))}}
+		}},
+		{"support at the middle settling", func() *Model {
+			m := groundModel(long, k)
+			m.Supports[0].Kind = Pinned
+			m.Supports[0].Settlement[Transverse] = settle
+			return m
+		}, func(e *Exact) []want {
+			r := 2 * k * settle / beta // down, pulling the beam with it
+			return []want{{"support's reaction", e.Reactions()[0].Force[Transverse], r}, {"M over it", e.At(long/2, Right).BendingMoment, -r / (4 * beta)}}
+		}},
+	}...)
+	for _, r := range rows {
+		t.Run(r.name, func(t *testing.T) {
+			e, err := SolveExact(r.model())
+			if err != nil {
+				t.Fatal(err)
+			}
+			for _, w := range r.check(e) {
+				if relErr(w.got, w.want) > 1e-9 {
+					t.Errorf("%s %.12g, want %.12g", w.what, w.got, w.want)
+				}
+			}
+		})
+	}
+}
+
 // A free beam of any length on an elastic foundation under a uniform load q
 // settles uniformly by q/k and does not bend (Hetényi, 1946, from memory:
 // the foundation's pressure matches the load point by point). The
@@ -248,6 +359,76 @@ func TestPartialFoundationConverges(t *testing.T) {
 	total := exactGround[0] + exactGround[1] + e.Reactions()[0].Force[1]
 	if relErr(total, 2e4+3e4+6.5*2.5e3) > 1e-9 {
 		t.Errorf("exact: foundations %v and the support %.10g N carry %.10g N, want %.10g", exactGround, e.Reactions()[0].Force[1], total, 2e4+3e4+6.5*2.5e3)
+	}
+}
+
+// A point load P a millimetre or a centimetre beyond a hinge on a long
+// beam on an elastic foundation, on a mesh of 100 elements: every node on a
+// foundation enters the factorized equations, and the short element, pinned
+// at the hinge, leaves a pivot block of rank one there. The ground must
+// still carry P to round-off (statics: nothing else holds the member
+// across), wherever the hinge lies along the member; the node-block kernel
+// of package band missed it by 0.14 % (the FE equilibrium check failed) when
+// the elimination met that block from the far end.
+func TestShortStretchBeyondAHingeOnAFoundation(t *testing.T) {
+	const L, k, P = 100.0, 6.4e6, -1e5
+	for _, c := range []struct{ hinge, beyond float64 }{
+		{20, 1e-3}, {50, 1e-3}, {70, 1e-3}, {49.5, 1e-3}, {70, 1e-2},
+	} {
+		m := groundModel(L, k)
+		m.Supports[0].X = c.hinge
+		m.Hinges = []Hinge{{X: c.hinge}}
+		m.PointLoads = []PointLoad{{X: c.hinge + c.beyond, Transverse: P}}
+		m.Mesh = MeshSettings{Elements: 100}
+		s := mustSolve(t, m)
+		tol := max(1e-9, 4*s.Condition*0x1p-52)
+		if r := s.Equilibrium.Residual; math.Abs(r[1]) > tol*math.Abs(P) || math.Abs(r[2]) > tol*math.Abs(P)*L {
+			t.Errorf("hinge at x = %g m, load %g m beyond: equilibrium residual %v, beyond %.3g of the load", c.hinge, c.beyond, r, tol)
+		}
+		if g := s.Foundations[0].Force[1]; relErr(g, -P) > tol {
+			t.Errorf("hinge at x = %g m, load %g m beyond: the ground carries %.10g N, want %.10g", c.hinge, c.beyond, g, -P)
+		}
+	}
+}
+
+// Where the ground carries its resultant across, read in the summary: under
+// a point load on a long beam (statics: the ground returns the load, so its
+// resultant acts under it), and nowhere where the ground's forces add up to
+// a couple alone: a free beam on a foundation turned by a moment C at its
+// end, or pushed down and up by ±P a distance d apart, has the ground
+// return −C or P·d as a couple (statics: no force across, moments
+// balanced). Its line of action was M/F with F round-off, 1.2e31 m.
+func TestWhereTheGroundActs(t *testing.T) {
+	const L, k = 40.0, 6.4e6
+	for _, c := range []struct {
+		name   string
+		loads  []PointLoad
+		couple float64 // N·m the ground returns as a couple; 0: a force at centre
+		centre float64 // m
+	}{
+		{"point load mid-member", []PointLoad{{X: 17, Transverse: -1e5}}, 0, 17},
+		{"moment at the end", []PointLoad{{X: 0, Moment: 3e4}}, -3e4, 0},
+		{"equal and opposite loads", []PointLoad{{X: 15, Transverse: -1e5}, {X: 25, Transverse: 1e5}}, -1e6, 0},
+	} {
+		m := groundModel(L, k)
+		m.PointLoads = c.loads
+		m.Mesh = MeshSettings{Elements: 160}
+		s := mustSolve(t, m)
+		e, err := SolveExact(m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		g := Summarize(s, e).Foundations[0]
+		centre, fe, ok := g.Centre()
+		if c.couple != 0 {
+			if ok || relErr(g.Reaction.Moment, c.couple) > 1e-9 {
+				t.Errorf("%s: the ground acts at %g m (FE %g m) with %g N·m; want a couple of %g N·m, acting nowhere", c.name, centre, fe, g.Reaction.Moment, c.couple)
+			}
+			continue
+		}
+		if !ok || relErr(centre, c.centre) > 1e-9 || relErr(fe, c.centre) > 1e-6 {
+			t.Errorf("%s: the ground acts at %g m (FE %g m, found %v); want %g m", c.name, centre, fe, ok, c.centre)
+		}
 	}
 }
 

@@ -189,3 +189,111 @@ func TestTemperatureDifferenceInLoadCases(t *testing.T) {
 		}
 	}
 }
+
+// A combination takes a case's temperature difference with the case's
+// factor, as it takes the case's loads. A beam fixed at both ends with a
+// central load P in one case and the temperature difference in another:
+// the combination 1.35·imposed + 1.5·sun has the left end's reaction
+// moment 1.35·P·L/8 + 1.5·EI·κ and the end reactions 1.35·P/2 (the
+// temperature difference of a fixed-ended beam bends it by end moments
+// alone, M = −EI·κ; Roark's, thermal bending of beams; P·L/8 and P/2 from
+// the AISC beam diagrams; from memory). The combinations' loads left the
+// temperature difference out, so the combination had the imposed case's
+// moment alone.
+func TestTemperatureDifferenceInCombinations(t *testing.T) {
+	const L, dT, depth, P = 6.0, 30.0, 0.3, -1e3
+	ei := testE * testI
+	kappa := testα * dT / depth
+	seg := testSegment(0, L)
+	seg.Section.Depth, seg.TemperatureDifference = depth, dT
+	m := &Model{
+		Segments: []Segment{seg},
+		Supports: []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Fixed}},
+		Cases: []LoadCase{
+			{Name: "imposed", PointLoads: []PointLoad{{X: L / 2, Transverse: P}}},
+			{Name: "sun", ThermalGradient: true},
+		},
+		Combinations: []Combination{{Name: "ULS", Kind: Strength, Factors: []CaseFactor{{Case: 0, Factor: 1.35}, {Case: 1, Factor: 1.5}}}},
+		Mesh:         MeshSettings{Elements: 8},
+	}
+	_, cs := solveCombinations(t, m)
+	fe, err := cs.Solution(0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	ex, err := cs.Exact(0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	wantMoment, wantShear := -1.35*P*L/8+1.5*ei*kappa, -1.35*P/2
+	for name, rs := range map[string][]Reaction{"FE": fe.Reactions, "exact": ex.Reactions()} {
+		if got := rs[0].Force[Rotation]; relErr(got, wantMoment) > 1e-9 {
+			t.Errorf("%s: left end moment %.9g, want %.9g", name, got, wantMoment)
+		}
+		if got := rs[0].Force[Transverse]; relErr(got, wantShear) > 1e-9 {
+			t.Errorf("%s: left end reaction %.9g, want %.9g", name, got, wantShear)
+		}
+	}
+	// The moment at midspan: 1.35·P·L/8 sagging less 1.5·EI·κ.
+	if got, want := ex.At(L/2, Right).BendingMoment, -1.35*P*L/8-1.5*ei*kappa; relErr(got, want) > 1e-9 {
+		t.Errorf("exact midspan moment %.9g, want %.9g", got, want)
+	}
+}
+
+// A beam fixed at both ends whose segments, alike in stiffness, are
+// curved differently by their temperature differences: free curvatures κᵢ
+// on stretches [aᵢ, bᵢ]. The moment is linear, M = M₀ + V·x, and the end
+// rotations and deflections vanish (the moment-area theorems, from
+// memory): M₀·L + V·L²/2 = −EI·∫κ dx and M₀·L²/2 + V·L³/3 = −EI·∫x·κ dx.
+// The key-point system merged the breaks between segments of equal EA, EI
+// and α, so the finite element solution took one segment's curvature for
+// both (zero reactions with the difference on the first half only); the
+// exact solution was right.
+func TestTemperatureDifferencesOfSegmentsAlike(t *testing.T) {
+	const L = 6.0
+	ei := testE * testI
+	for _, c := range []struct {
+		name       string
+		difference [2]float64 // K, of the segments [0, 3] and [3, 6]
+		depth      [2]float64 // m
+	}{
+		{"first half warmer below", [2]float64{30, 0}, [2]float64{0.3, 0.3}},
+		{"second half warmer below", [2]float64{0, 30}, [2]float64{0.3, 0.3}},
+		{"both, unequal", [2]float64{30, -10}, [2]float64{0.3, 0.3}},
+		{"both the same, different depths", [2]float64{30, 30}, [2]float64{0.3, 0.6}},
+	} {
+		var segs []Segment
+		var integral, moment float64 // ∫κ dx, ∫x·κ dx
+		for i := range 2 {
+			s := testSegment(3*float64(i), 3*float64(i+1))
+			s.Section.Depth, s.TemperatureDifference = c.depth[i], c.difference[i]
+			segs = append(segs, s)
+			k := testα * c.difference[i] / c.depth[i]
+			integral += k * 3
+			moment += k * (s.End*s.End - s.Start*s.Start) / 2
+		}
+		// Solve the two compatibility equations for M₀ and V.
+		a, b, d := L, L*L/2, L*L*L/3
+		det := a*d - b*b
+		m0 := (-ei*integral*d + b*ei*moment) / det
+		v := (-a*ei*moment + b*ei*integral) / det
+		m := &Model{Segments: segs, Supports: []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Fixed}}, Mesh: MeshSettings{Elements: 8}}
+		s := mustSolve(t, m)
+		e, err := SolveExact(m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		want := [2][2]float64{{v, -m0}, {-v, m0 + v*L}} // transverse and moment reactions at 0 and L
+		scale := math.Abs(m0) + math.Abs(v)*L
+		for name, rs := range map[string][]Reaction{"FE": s.Reactions, "exact": e.Reactions()} {
+			for i, r := range rs {
+				if math.Abs(r.Force[Transverse]-want[i][0])*L > 1e-9*scale || math.Abs(r.Force[Rotation]-want[i][1]) > 1e-9*scale {
+					t.Errorf("%s, %s: support %d takes %.9g N, %.9g N·m; want %.9g N, %.9g N·m", c.name, name, i+1, r.Force[Transverse], r.Force[Rotation], want[i][0], want[i][1])
+				}
+			}
+		}
+		if w := s.At(1.5, Right).Deflection - e.At(1.5, Right).Deflection; math.Abs(w) > 1e-9*testα*30/0.3*L*L {
+			t.Errorf("%s: FE deflection at 1.5 m off the exact one by %.3g m", c.name, w)
+		}
+	}
+}

@@ -45,14 +45,16 @@ func systemKeyPoints(m *Model) []float64 {
 }
 
 // sameStiffness reports whether two segments give the solver the same
-// stretch: the same E·A, E·I and thermal expansion (a break between them
-// changes only what is read off the fields, such as stresses).
+// stretch: the same E·A, E·I, thermal expansion and free curvature of a
+// temperature difference, α·ΔT/depth (a break between them changes only
+// what is read off the fields, such as stresses).
 func sameStiffness(a, b Segment) bool {
 	ea, eb := a.Material, b.Material
 	return a.shearFlexibility() == b.shearFlexibility() &&
 		ea.Elastic*a.Section.Area == eb.Elastic*b.Section.Area &&
 		ea.Elastic*a.Section.SecondMoment == eb.Elastic*b.Section.SecondMoment &&
-		ea.ThermalExpansion == eb.ThermalExpansion
+		ea.ThermalExpansion == eb.ThermalExpansion &&
+		a.TemperatureDifference/a.Section.depth() == b.TemperatureDifference/b.Section.depth()
 }
 
 // mergeSorted sorts pts, clamps them to [0, L] and keeps one point of each

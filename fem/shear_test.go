@@ -173,3 +173,72 @@ func TestShearNodalExactness(t *testing.T) {
 		}
 	}
 }
+
+// Shear deformation changes what a statically indeterminate beam carries.
+// With Φ = 12EI/(κGA·L²), a beam fixed at both ends under a load P at a
+// (b = L − a) has end moments Pab/L²·(b + ΦL/2)/(1 + Φ) and
+// Pab/L²·(a + ΦL/2)/(1 + Φ); under a settlement Δ of one end, 6EIΔ/(L²(1 + Φ))
+// at both; under a rotation θ of one end, (4 + Φ)EIθ/(L(1 + Φ)) there and
+// (2 − Φ)EIθ/(L(1 + Φ)) at the other (the slope-deflection equations of the
+// shear-flexible beam, Przemieniecki, Theory of Matrix Structural
+// Analysis; checked by the unit-load method with ∫M·m/EI + ∫V·v/(κGA); from
+// memory). A propped cantilever under a uniform load q keeps its prop
+// R = (qL⁴/(8EI) + qL²/(2κGA))/(L³/(3EI) + L/(κGA)) (the cantilever's tip
+// deflections under q and under R cancel). Both solutions, for a stubby
+// beam (L = 0.6 m, Φ ≈ 1.7) and a slender one (L = 6 m, Φ ≈ 0.017).
+func TestShearDeformationIndeterminate(t *testing.T) {
+	const kappa, P, q, delta, theta = 5.0 / 6, -40e3, -25e3, -2e-3, 3e-3
+	ei := testE * testI
+	gka := testE / 2.6 * kappa * testA
+	for _, L := range []float64{0.6, 6} {
+		phi := 12 * ei / (gka * L * L)
+		a, b := L/3, 2*L/3
+		prop := -q * (L*L*L*L/(8*ei) + L*L/(2*gka)) / (L*L*L/(3*ei) + L/gka)
+		for _, c := range []struct {
+			name     string
+			supports []Support
+			load     func(m *Model)
+			want     [2][2]float64 // transverse reaction and moment at x = 0 and at x = L
+		}{
+			{"fixed at both ends, load at L/3", []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Fixed}},
+				func(m *Model) { m.PointLoads = []PointLoad{{X: a, Transverse: P}} },
+				func() [2][2]float64 {
+					ma := -P * a * b / (L * L) * (b + phi*L/2) / (1 + phi) // counter-clockwise reaction at x = 0
+					mb := P * a * b / (L * L) * (a + phi*L/2) / (1 + phi)
+					ra := -P*b/L + (ma+mb)/L
+					return [2][2]float64{{ra, ma}, {-P - ra, mb}}
+				}()},
+			{"fixed at both ends, one settling", []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Fixed, Settlement: [3]float64{0, delta, 0}}},
+				func(*Model) {},
+				func() [2][2]float64 {
+					m := -6 * ei * delta / (L * L * (1 + phi))
+					return [2][2]float64{{2 * m / L, m}, {-2 * m / L, m}}
+				}()},
+			{"fixed at both ends, one turned", []Support{{X: 0, Kind: Fixed, Settlement: [3]float64{0, 0, theta}}, {X: L, Kind: Fixed}},
+				func(*Model) {},
+				func() [2][2]float64 {
+					ma, mb := (4+phi)*ei*theta/(L*(1+phi)), (2-phi)*ei*theta/(L*(1+phi))
+					return [2][2]float64{{(ma + mb) / L, ma}, {-(ma + mb) / L, mb}}
+				}()},
+			{"propped cantilever, uniform load", []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Roller}}, loadedUniformly(L, q),
+				[2][2]float64{{-q*L - prop, -q*L*L/2 - prop*L}, {prop, 0}}},
+		} {
+			m := &Model{Segments: []Segment{shearSegment(0, L, kappa)}, Supports: c.supports, Mesh: MeshSettings{Elements: 8}}
+			c.load(m)
+			s := mustSolve(t, m)
+			e, err := SolveExact(m)
+			if err != nil {
+				t.Fatal(err)
+			}
+			scale := math.Abs(c.want[0][0]) + math.Abs(c.want[0][1])/L
+			for name, rs := range map[string][]Reaction{"FE": s.Reactions, "exact": e.Reactions()} {
+				for i, r := range rs {
+					got := [2]float64{r.Force[Transverse], r.Force[Rotation]}
+					if math.Abs(got[0]-c.want[i][0]) > 1e-9*scale || math.Abs(got[1]-c.want[i][1]) > 1e-9*scale*L {
+						t.Errorf("L = %g m, %s, %s: support %d takes %.9g N, %.9g N·m; want %.9g N, %.9g N·m", L, c.name, name, i+1, got[0], got[1], c.want[i][0], c.want[i][1])
+					}
+				}
+			}
+		}
+	}
+}

@@ -48,8 +48,8 @@ type EquilibriumSummary struct {
 	Reactions Components // of the supports and the ground
 	Ground    Components // the part of Reactions the foundations carry
 	Residual  Components
-	// Relative is the largest residual component divided by the largest applied
-	// or reaction component of the same kind; it should be near round-off.
+	// Relative is the largest residual component divided by the scale of
+	// its kind (Solution.EquilibriumScales); it should be near round-off.
 	Relative float64
 }
 
@@ -84,6 +84,26 @@ type FoundationSummary struct {
 	// member (it has an axial modulus), [1] across it (a modulus).
 	Holds        [2]bool
 	Reaction, FE FoundationReaction
+	// nothingAcross says the ground's forces across add up to nothing, to
+	// the round-off of the model's forces (Solution.EquilibriumScales), and
+	// couple that they make a couple (Reaction.Moment), which has no line
+	// of action.
+	nothingAcross, couple bool
+}
+
+// Centre is where the ground's resultant across the member acts, m, in the
+// headline solution and in the finite element one (FoundationReaction.Centre),
+// the middle of the foundation where it carries nothing across; ok is false
+// where the ground carries a couple alone, which acts nowhere in particular.
+func (f FoundationSummary) Centre() (headline, fe float64, ok bool) {
+	if f.couple {
+		return math.NaN(), math.NaN(), false
+	}
+	if f.nothingAcross {
+		mid := 0.5 * (f.Start + f.End)
+		return mid, mid, true
+	}
+	return f.Reaction.Centre(), f.FE.Centre(), true
 }
 
 // SupportActions are the shear force and the bending moment just left ([0])
@@ -488,11 +508,11 @@ func (z *Summarizer) Summary() Summary {
 	if s.AxialOnly {
 		sum.axialOnly()
 	}
-	applied := s.Equilibrium.Applied
-	sum.FEEquilibrium = equilibriumSummary(s.Equilibrium)
+	force, moment := s.EquilibriumScales(ex)
+	sum.FEEquilibrium = equilibriumSummary(s.Equilibrium, force, moment)
 	sum.Equilibrium = sum.FEEquilibrium
 	if ex != nil {
-		sum.Equilibrium = equilibriumSummary(ex.Balance(applied))
+		sum.Equilibrium = equilibriumSummary(ex.Balance(s.Equilibrium.Applied), force, moment)
 	}
 	if z.comparison != nil {
 		norms := z.comparison.Norms()
@@ -566,9 +586,14 @@ func foundationSummaries(s *Solution, e *Exact) []FoundationSummary {
 		return nil
 	}
 	var exact []FoundationReaction
+	// The headline's round-off: the exact solution's own, or the FE's.
+	condition := s.Condition
 	if e != nil {
 		exact = e.Foundations()
+		condition = e.Condition
 	}
+	force, _ := s.EquilibriumScales(e)
+	negligible := force * max(1e-9, 4*condition*0x1p-52)
 	out := make([]FoundationSummary, len(s.Foundations))
 	for i, r := range s.Foundations {
 		f := s.Model.Foundations[r.Foundation]
@@ -577,17 +602,20 @@ func foundationSummaries(s *Solution, e *Exact) []FoundationSummary {
 		if i < len(exact) {
 			out[i].Reaction = exact[i]
 		}
+		g := out[i].Reaction
+		out[i].nothingAcross = math.Abs(g.Force[1]) <= negligible
+		out[i].couple = out[i].nothingAcross && math.Abs(g.Moment) > negligible*s.Model.Length()
 	}
 	return out
 }
 
-func equilibriumSummary(eq Equilibrium) EquilibriumSummary {
+func equilibriumSummary(eq Equilibrium, force, moment float64) EquilibriumSummary {
 	return EquilibriumSummary{
 		Applied:   components(eq.Applied),
 		Reactions: components(eq.Reactions),
 		Ground:    components(eq.Ground),
 		Residual:  components(eq.Residual),
-		Relative:  relativeResidual(eq),
+		Relative:  relativeResidual(eq, force, moment),
 	}
 }
 
@@ -595,18 +623,60 @@ func components(v [3]float64) Components {
 	return Components{Axial: v[0], Transverse: v[1], Moment: v[2]}
 }
 
-// relativeResidual scales each residual component by the size of the forces
-// of its kind, so a residual of 1e-9 N under kilonewton loads reads as round-off.
-func relativeResidual(eq Equilibrium) float64 {
+// relativeResidual scales the residual forces by force and the residual
+// moment by moment (Solution.EquilibriumScales), so a residual of 1e-9 N
+// under kilonewton loads reads as round-off, and so does a moment of
+// 1e-11 N·m where the loads and reactions add up to no moment.
+func relativeResidual(eq Equilibrium, force, moment float64) float64 {
 	worst := 0.0
-	for i := range eq.Residual {
-		scale := math.Max(math.Abs(eq.Applied[i]), math.Abs(eq.Reactions[i]))
-		if scale == 0 {
-			continue
+	for i, r := range eq.Residual {
+		scale := force
+		if i == 2 {
+			scale = moment
 		}
-		worst = math.Max(worst, math.Abs(eq.Residual[i])/scale)
+		if scale > 0 {
+			worst = math.Max(worst, math.Abs(r)/scale)
+		}
 	}
 	return worst
+}
+
+// EquilibriumScales are the force (N) and the moment about x = 0 (N·m)
+// that the residuals of equilibrium are judged against: the largest of the
+// loads, of the reactions summed, of each support's and foundation's own
+// force, which self-balancing actions (a temperature difference in a
+// continuous beam) leave large while their sum is nothing, and of what the
+// imposed deformations would make if fully restrained (ImposedScales), in
+// the finite element solution s and, when e is not nil, the exact one. A
+// moment is carried by forces and a force by moments, so each is at least
+// the other over or times the member's length.
+func (s *Solution) EquilibriumScales(e *Exact) (force, moment float64) {
+	balances := []Equilibrium{s.Equilibrium}
+	reactions := [][]Reaction{s.Reactions}
+	if e != nil {
+		balances = append(balances, e.Balance(s.Equilibrium.Applied))
+		reactions = append(reactions, e.reactions)
+	}
+	for _, eq := range balances {
+		for i := range 2 {
+			force = max(force, math.Abs(eq.Applied[i]), math.Abs(eq.Reactions[i]))
+		}
+		moment = max(moment, math.Abs(eq.Applied[2]), math.Abs(eq.Reactions[2]))
+	}
+	for _, rs := range reactions {
+		for _, r := range rs {
+			force = max(force, math.Abs(r.Force[Axial]), math.Abs(r.Force[Transverse]))
+			moment = max(moment, math.Abs(r.Force[Rotation]), math.Abs(r.X*r.Force[Transverse]))
+		}
+	}
+	for _, g := range s.Foundations {
+		force = max(force, math.Abs(g.Force[0]), math.Abs(g.Force[1]))
+		moment = max(moment, math.Abs(g.Moment))
+	}
+	f, mo := s.Model.ImposedScales()
+	force, moment = max(force, f), max(moment, mo)
+	L := s.Model.Length()
+	return max(force, moment/L), max(moment, force*L)
 }
 
 // Balance is the equilibrium of the exact reactions with applied, the

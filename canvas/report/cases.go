@@ -38,7 +38,10 @@ type CaseJSON struct {
 	SelfWeight        bool    `json:"self_weight"`
 	TemperatureChange float64 `json:"temperature_change"` // K
 	Settlements       bool    `json:"settlements"`
-	BySpan            bool    `json:"by_span"`
+	// TemperatureDifferences says the segments' temperature differences
+	// through the depth act in this case.
+	TemperatureDifferences bool `json:"temperature_differences"`
+	BySpan                 bool `json:"by_span"`
 	*Results
 }
 
@@ -156,7 +159,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 			return nil, fmt.Errorf("load case %q: %w", lc.Name, err)
 		}
 		out.Cases = append(out.Cases, CaseJSON{Name: lc.Name, SelfWeight: lc.SelfWeight, TemperatureChange: lc.TemperatureChange,
-			Settlements: lc.Settlements, BySpan: lc.BySpan, Results: resultsOf(s)})
+			Settlements: lc.Settlements, TemperatureDifferences: lc.ThermalGradient, BySpan: lc.BySpan, Results: resultsOf(s)})
 	}
 	for k, cb := range c.Combinations {
 		cj := CombinationJSON{Name: cb.Name, Kind: cb.Kind.String(), Label: cb.Label}
@@ -424,6 +427,9 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 		}
 		if c.Settlements {
 			marks = append(marks, "settlements")
+		}
+		if c.TemperatureDifferences {
+			marks = append(marks, "temperature differences through the depth")
 		}
 		if c.BySpan {
 			marks = append(marks, "placed by span")

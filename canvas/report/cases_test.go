@@ -4,9 +4,11 @@ import (
 	"bytes"
 	"context"
 	"math"
+	"slices"
 	"strings"
 	"testing"
 
+	"stave/fem"
 	"stave/fem/analysis"
 	"stave/fem/units"
 	"stave/storage"
@@ -76,14 +78,7 @@ func TestEnvelopeIsExact(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	src, err := Analyse(context.Background(), p)
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := CasesResults(src.Analysis)
-	if err != nil {
-		t.Fatal(err)
-	}
+	r := casesResults(t, p)
 	if r.Envelope.Solution != "exact" {
 		t.Errorf("envelope of the %q solution, want exact", r.Envelope.Solution)
 	}
@@ -121,4 +116,53 @@ func TestFactorsText(t *testing.T) {
 			t.Errorf("got %q, want %q", got, c.want)
 		}
 	}
+}
+
+// A case that takes the segments' temperature differences says so, in the
+// document and in the text, where it read like an empty case; and the
+// combination takes it with its factor: a beam fixed at both ends, 30 K
+// warmer below (α = 12e-6 /K, depth 0.3 m, EI = 2e7 N·m²), has end
+// moments ±EI·α·ΔT/h = ±24 kN·m (Roark's, thermal bending of beams, from
+// memory), 36 kN·m with the factor 1.5.
+func TestCaseTakingTemperatureDifferences(t *testing.T) {
+	seg := fem.Segment{Start: 0, End: 5, TemperatureDifference: 30,
+		Section:  fem.Section{Area: 0.01, SecondMoment: 1e-4, FibreDistance: 0.15},
+		Material: fem.Material{Elastic: 2e11, ThermalExpansion: 12e-6}}
+	p := &storage.Project{View: storage.DefaultView(), Model: fem.Model{
+		Segments: []fem.Segment{seg},
+		Supports: []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 5, Kind: fem.Fixed}},
+		Cases: []fem.LoadCase{
+			{Name: "imposed", PointLoads: []fem.PointLoad{{X: 2.5, Transverse: -1e4}}},
+			{Name: "sun", ThermalGradient: true},
+		},
+		Combinations: []fem.Combination{{Name: "C", Kind: fem.Strength, Factors: []fem.CaseFactor{{Case: 1, Factor: 1.5}}}},
+	}}
+	r := casesResults(t, p)
+	if r.Cases[0].TemperatureDifferences || !r.Cases[1].TemperatureDifferences {
+		t.Errorf("cases take temperature differences: %v and %v, want false and true", r.Cases[0].TemperatureDifferences, r.Cases[1].TemperatureDifferences)
+	}
+	if m := r.Combinations[0].Reactions[0].Moment; m == nil || math.Abs(m.Value-1.5*24e3) > 1e-6 {
+		t.Errorf("combination C's moment at x = 0: %+v, want 36 kN·m", m)
+	}
+	var text bytes.Buffer
+	WriteCasesText(&text, "model.json", r, units.SI)
+	if !slices.ContainsFunc(strings.Split(text.String(), "\n"), func(l string) bool {
+		return strings.HasPrefix(strings.TrimSpace(l), "sun ") && strings.HasSuffix(l, "temperature differences through the depth")
+	}) {
+		t.Errorf("the text does not say case sun takes the temperature differences:\n%s", text.String())
+	}
+}
+
+// casesResults analyses p and returns its cases' results.
+func casesResults(t *testing.T, p *storage.Project) *CasesJSON {
+	t.Helper()
+	src, err := Analyse(context.Background(), p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := CasesResults(src.Analysis)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return r
 }

@@ -183,6 +183,24 @@ func TestGroundBeamBalances(t *testing.T) {
 	}
 }
 
+// A free beam on a foundation turned by a moment C at its end: the ground
+// returns −C as a couple and no force across (statics), so the document
+// gives its moment and no line of action (centre null), and the text says
+// why, where both printed M/F of round-off, 1.2e31 m.
+func TestGroundCarryingACouple(t *testing.T) {
+	const C = 30e3 // N·m, counter-clockwise
+	p := groundProject(20, 2e8, 2e7, fem.MeshSettings{Elements: 80})
+	p.Model.PointLoads = []fem.PointLoad{{X: 0, Moment: C}}
+	doc, text := solveProject(t, p)
+	f := doc.Foundations[0]
+	if f.Centre != nil || f.Moment == nil || !near(f.Moment.Value, -C, 1e-9) {
+		t.Errorf("the ground: centre %+v, moment %+v; want no centre and a moment of %g N·m", f.Centre, f.Moment, -C)
+	}
+	if !strings.Contains(text, "nowhere: the forces across add up to nothing, a couple") {
+		t.Errorf("the solve text does not say the ground carries a couple:\n%s", text)
+	}
+}
+
 // With load cases, each case and combination reports what the ground
 // carries, and the envelope holds its largest and smallest. A free beam on
 // a full-length foundation returns every load across it through the

@@ -266,7 +266,9 @@ func foundationsOf(s fem.Summary) []foundationJSON {
 		if f.Holds[fem.Transverse] {
 			j.Transverse = c(f.Reaction.Force[1], f.FE.Force[1], "N")
 			j.Moment = c(f.Reaction.Moment, f.FE.Moment, "N·m")
-			j.Centre = c(f.Reaction.Centre(), f.FE.Centre(), "m")
+			if centre, fe, ok := f.Centre(); ok {
+				j.Centre = c(centre, fe, "m")
+			}
 		}
 		out = append(out, j)
 	}
@@ -487,6 +489,7 @@ func WriteResultsText(w io.Writer, src Source) {
 		fmt.Fprintln(tw, columns("  foundation\tfrom\tto\tcomponent"))
 		for _, f := range sum.Foundations {
 			lead := fmt.Sprintf("  %d\t%s\t%s", f.Foundation, pos(f.Start), pos(f.End))
+			centre, feCentre, acts := f.Centre()
 			for _, c := range []struct {
 				name    string
 				kind    units.Kind
@@ -496,12 +499,16 @@ func WriteResultsText(w io.Writer, src Source) {
 				{"axial", units.Force, f.Reaction.Force[0], f.FE.Force[0], f.Holds[fem.Axial]},
 				{"transverse", units.Force, f.Reaction.Force[1], f.FE.Force[1], f.Holds[fem.Transverse]},
 				{"moment about x = 0", units.Moment, f.Reaction.Moment, f.FE.Moment, f.Holds[fem.Transverse]},
-				{"acts at x", units.Position, f.Reaction.Centre(), f.FE.Centre(), f.Holds[fem.Transverse]},
+				{"acts at x", units.Position, centre, feCentre, f.Holds[fem.Transverse]},
 			} {
 				if !c.holding {
 					continue
 				}
-				fmt.Fprintf(tw, "%s\t%s\t%s\n", lead, c.name, values(c.kind, c.v, c.fe))
+				text := values(c.kind, c.v, c.fe)
+				if c.kind == units.Position && !acts {
+					text = "nowhere: the forces across add up to nothing, a couple"
+				}
+				fmt.Fprintf(tw, "%s\t%s\t%s\n", lead, c.name, text)
 				lead = "  \t\t"
 			}
 		}

@@ -311,3 +311,93 @@ func TestNearSingularModelIsUnreliable(t *testing.T) {
 		}
 	}
 }
+
+// A temperature load on a segment without a coefficient of thermal
+// expansion does nothing (N = −EA·α·ΔT = 0 in a bar held at both ends):
+// the findings say so, for a uniform change at the top level or in a case
+// and for a temperature difference through the depth, and only for the
+// segments that lack α.
+func TestTemperatureWithoutExpansion(t *testing.T) {
+	segment := func(start, end, alpha, difference float64) fem.Segment {
+		return fem.Segment{Start: start, End: end, TemperatureDifference: difference,
+			Section:  fem.Section{Area: 0.01, SecondMoment: 1e-4, FibreDistance: 0.15},
+			Material: fem.Material{Elastic: 210e9, ThermalExpansion: alpha}}
+	}
+	held := []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 6, Kind: fem.Fixed}}
+	for _, c := range []struct {
+		name string
+		m    fem.Model
+		want []string // the names of the findings of code material
+	}{
+		{"warmed, no α", fem.Model{Segments: []fem.Segment{segment(0, 6, 0, 0)}, Supports: held, TemperatureChange: 30},
+			[]string{"thermal expansion of segment 1"}},
+		{"warmed, with α", fem.Model{Segments: []fem.Segment{segment(0, 6, 12e-6, 0)}, Supports: held, TemperatureChange: 30}, nil},
+		{"a difference on the segment without α", fem.Model{Segments: []fem.Segment{segment(0, 3, 12e-6, 0), segment(3, 6, 0, 20)}, Supports: held},
+			[]string{"thermal expansion of segment 2"}},
+		{"no temperature load, no α", fem.Model{Segments: []fem.Segment{segment(0, 6, 0, 0)}, Supports: held,
+			PointLoads: []fem.PointLoad{{X: 3, Transverse: -1e4}}}, nil},
+		{"warmed in a load case", fem.Model{Segments: []fem.Segment{segment(0, 3, 0, 0), segment(3, 6, 0, 0)}, Supports: held,
+			Cases: []fem.LoadCase{{Name: "summer", TemperatureChange: 25}}},
+			[]string{"thermal expansion of segment 1", "thermal expansion of segment 2"}},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			var got []string
+			for _, f := range materialFindings(t, c.m) {
+				got = append(got, f.Name)
+				if f.Severity != Caution || !strings.Contains(f.Message, "does nothing to it") {
+					t.Errorf("finding %q: severity %v, message %q", f.Name, f.Severity, f.Message)
+				}
+			}
+			if !slices.Equal(got, c.want) {
+				t.Errorf("findings of code material %q, want %q", got, c.want)
+			}
+		})
+	}
+}
+
+// A segment deforming in shear whose shear area exceeds its cross-section
+// area (κ above 1, or As given in the wrong units) is a caution: As = κ·A
+// with κ below 1 for every section (Timoshenko's shear coefficient, from
+// memory). Only such segments are named.
+func TestShearAreaAboveTheArea(t *testing.T) {
+	segment := func(start, end, kappa, shearArea float64) fem.Segment {
+		return fem.Segment{Start: start, End: end, ShearDeformation: true,
+			Section:  fem.Section{Area: 0.01, SecondMoment: 1e-4, FibreDistance: 0.15, ShearCoefficient: kappa, ShearArea: shearArea},
+			Material: fem.Material{Elastic: 210e9, Poisson: 0.3}}
+	}
+	held := []fem.Support{{X: 0, Kind: fem.Fixed}}
+	load := []fem.PointLoad{{X: 3, Transverse: -1e4}}
+	for _, c := range []struct {
+		name string
+		segs []fem.Segment
+		want []string
+	}{
+		{"κ 5/6", []fem.Segment{segment(0, 3, 5.0/6, 0)}, nil},
+		{"κ 2", []fem.Segment{segment(0, 3, 2, 0)}, []string{"shear area of segment 1"}},
+		{"As in cm² as if m²", []fem.Segment{segment(0, 1, 5.0/6, 0), segment(1, 3, 0, 80)}, []string{"shear area of segment 2"}},
+	} {
+		var got []string
+		for _, f := range materialFindings(t, fem.Model{Segments: c.segs, Supports: held, PointLoads: load}) {
+			got = append(got, f.Name)
+		}
+		if !slices.Equal(got, c.want) {
+			t.Errorf("%s: findings of code material %q, want %q", c.name, got, c.want)
+		}
+	}
+}
+
+// materialFindings are the findings of code material of m, analysed in full.
+func materialFindings(t *testing.T, m fem.Model) []Finding {
+	t.Helper()
+	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var out []Finding
+	for _, f := range a.Findings() {
+		if f.Code == CodeMaterial {
+			out = append(out, f)
+		}
+	}
+	return out
+}

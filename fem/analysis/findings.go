@@ -104,6 +104,8 @@ func (a *Analysis) Findings() []Finding {
 			}
 		}
 	}
+	out = append(out, thermalFindings(&a.Model)...)
+	out = append(out, shearAreaFindings(&a.Model)...)
 	if a.Solution == nil {
 		return out
 	}
@@ -135,6 +137,62 @@ func (a *Analysis) Findings() []Finding {
 		out = append(out, f)
 	}
 	return append(out, a.checkFindings()...)
+}
+
+// thermalFindings are the cautions that a temperature load acts on a
+// segment with no coefficient of thermal expansion, where it does nothing:
+// most likely α was left out, since every structural material expands.
+func thermalFindings(m *fem.Model) []Finding {
+	change := m.TemperatureChange != 0
+	for _, c := range m.Cases {
+		change = change || c.TemperatureChange != 0
+	}
+	var out []Finding
+	for i, s := range m.Segments {
+		if s.Material.ThermalExpansion != 0 {
+			continue
+		}
+		var loads []string
+		if change {
+			loads = append(loads, "the temperature change")
+		}
+		if s.TemperatureDifference != 0 {
+			loads = append(loads, fmt.Sprintf("its temperature difference of %s K through the depth", units.FormatNumber(s.TemperatureDifference)))
+		}
+		if len(loads) == 0 {
+			continue
+		}
+		f := finding(CodeMaterial, fmt.Sprintf("thermal expansion of segment %d", i+1),
+			fmt.Sprintf("Segment %d has no coefficient of thermal expansion α, so %s does nothing to it: enter α (typical values: steel 12e-6 /K, concrete 10e-6 /K, aluminium 23.6e-6 /K), or remove the temperature load.", i+1, strings.Join(loads, " and ")))
+		f.Span = [2]float64{s.Start, s.End}
+		out = append(out, f)
+	}
+	return out
+}
+
+// shearAreaFindings are the cautions that a segment deforming in shear has
+// a shear area above its cross-section area: As = κ·A with κ below 1 for
+// every section (5/6 for a solid rectangle, about the web's share of A for
+// an I-section; Timoshenko's shear coefficient, from memory), so a larger
+// one is most likely in the wrong units, and it hides the shear deflection.
+func shearAreaFindings(m *fem.Model) []Finding {
+	var out []Finding
+	for i, s := range m.Segments {
+		as := s.Section.ShearArea
+		what := fmt.Sprintf("shear area %s m²", units.FormatNumber(as))
+		if as == 0 {
+			as = s.Section.ShearCoefficient * s.Section.Area
+			what = fmt.Sprintf("shear coefficient κ = %s", units.FormatNumber(s.Section.ShearCoefficient))
+		}
+		if !s.ShearDeformation || as <= s.Section.Area {
+			continue
+		}
+		f := finding(CodeMaterial, fmt.Sprintf("shear area of segment %d", i+1),
+			fmt.Sprintf("Segment %d deforms in shear with a %s, more than its cross-section area of %s m²: the area carrying the shear is a part of the section (κ = 5/6 for a solid rectangle, about the web's share for an I-section), so check its units; too large a one leaves out shear deflection.", i+1, what, units.FormatNumber(s.Section.Area)))
+		f.Span = [2]float64{s.Start, s.End}
+		out = append(out, f)
+	}
+	return out
 }
 
 // coarseMesh is the finding that the finite element extremes are further

@@ -45,9 +45,10 @@
 //     factorization.
 //   - nodeblocks.go, K = 3, N even and at least 6, and the band block
 //     tridiagonal by nodes of two unknowns (A[2i+1][2i+4] = 0, a beam's
-//     system) with every diagonal entry within 1e±80: 2×2 pivot blocks node
-//     by node, from both ends, one division per node. A matrix that turns out
-//     not to be so is handed to the next kernel.
+//     system) with every diagonal entry within 1e±80 and no pivot block
+//     near singular (blockSplit): 2×2 pivot blocks node by node, from both
+//     ends, one division per node. A matrix that turns out not to be so is
+//     handed to the next kernel.
 //   - twisted3.go, K = 3 and N at least 5 otherwise: the scalar twisted
 //     factorization, row by row from both ends.
 //   - general.go, every other shape (K = 0, 2, 4 and more, small N): the

@@ -89,11 +89,28 @@ func pivotBlockOK(s11, det, o1, o2 float64) (ok bool, row int, pivot float64) {
 	return true, 0, 0
 }
 
+// blockSplit bounds how nearly singular a pivot block the node-block
+// kernel takes: det S at least blockSplit·s11·s22, an off-diagonal entry
+// below √(1 − blockSplit) of the geometric mean of the diagonal ones. A
+// block nearer singular, such as the one a very short element beyond a
+// hinge leaves (its stiffness, pinned at one end, has rank one), makes the
+// adjugate's products cancel to a few digits, and the solve's residual
+// grows far past the round-off of the row-by-row kernel, which such
+// matrices take instead. A beam element's own block has det = s11·s22/4,
+// and a foundation's or a spring's adds to the diagonal, so ordinary beams
+// stay on this kernel.
+const blockSplit = 1.0 / 16
+
+// wellSplit reports whether the pivot block with diagonal s11, s22 and
+// determinant det is far enough from singular for the node-block kernel
+// (blockSplit).
+func wellSplit(s11, s22, det float64) bool { return det >= blockSplit*s11*s22 }
+
 // factorNodes factorizes orig (n even, n ≥ nodeBlockMin, half-bandwidth 3)
 // into d, or returns errNotNodeBlocked, with d spoilt, when orig is not block
-// tridiagonal by nodes or has a diagonal entry beyond nodeRange. With b not
-// nil it solves into x as well, the forward substitution riding in the
-// factorization's sweep.
+// tridiagonal by nodes, has a diagonal entry beyond nodeRange or meets a
+// pivot block near singular (wellSplit). With b not nil it solves into x as
+// well, the forward substitution riding in the factorization's sweep.
 func factorNodes(d, orig []float64, n int, x, b []float64) error {
 	rhs := b != nil
 	nodes := n / 2
@@ -119,6 +136,9 @@ func factorNodes(d, orig []float64, n int, x, b []float64) error {
 			if ok, r, p := pivotBlockOK(s11, det, o[0], o[4]); !ok {
 				return &PivotError{Row: 2*i + r, Pivot: p, Diagonal: o[4*r]}
 			}
+			if !wellSplit(s11, s22, det) {
+				return errNotNodeBlocked
+			}
 			f := d[8*i : 8*i+8 : 8*i+8]
 			storeNode(f, inv, s11, s12, s22, a11, a12, a21, a22)
 			s11, s12, s22 = o[8]-p11*inv, o[9]-p12*inv, o[12]-p22*inv
@@ -140,6 +160,9 @@ func factorNodes(d, orig []float64, n int, x, b []float64) error {
 		if ok, r, p := pivotBlockOK(t11, det, o[8], o[12]); !ok {
 			return &PivotError{Row: 2*j + r, Pivot: p, Diagonal: o[8+4*r]}
 		}
+		if !wellSplit(t11, t22, det) {
+			return errNotNodeBlocked
+		}
 		f := d[8*j : 8*j+8 : 8*j+8]
 		storeNode(f, inv, t11, t12, t22, a11, a12, a21, a22)
 		t11, t12, t22 = o[0]-p11*inv, o[1]-p12*inv, o[4]-p22*inv
@@ -157,6 +180,9 @@ func factorNodes(d, orig []float64, n int, x, b []float64) error {
 	det := s11*s22 - s12*s12
 	if ok, r, p := pivotBlockOK(s11, det, o[0], o[4]); !ok {
 		return &PivotError{Row: 2*m + r, Pivot: p, Diagonal: o[4*r]}
+	}
+	if !wellSplit(s11, s22, det) {
+		return errNotNodeBlocked
 	}
 	inv := 1 / det
 	f := d[8*m : 8*m+8 : 8*m+8]

@@ -35,33 +35,7 @@ func equilibriumChecks(m *fem.Model, s *fem.Solution, e *fem.Exact, o Options) [
 	if e != nil {
 		balances = append(balances, e.Balance(s.Equilibrium.Applied))
 	}
-	// The scales are the largest terms summed: the loads, and each support's
-	// and foundation's own force, which self-balancing actions (a
-	// temperature difference in a continuous beam) leave large while their
-	// sum is nothing.
-	forceScale, momentScale := 0.0, 0.0
-	for _, eq := range balances {
-		for i := range 2 {
-			forceScale = math.Max(forceScale, math.Max(math.Abs(eq.Applied[i]), math.Abs(eq.Reactions[i])))
-		}
-		momentScale = math.Max(momentScale, math.Max(math.Abs(eq.Applied[2]), math.Abs(eq.Reactions[2])))
-	}
-	reactions := [][]fem.Reaction{s.Reactions}
-	if e != nil {
-		reactions = append(reactions, e.Reactions())
-	}
-	for _, rs := range reactions {
-		for _, r := range rs {
-			forceScale = math.Max(forceScale, math.Max(math.Abs(r.Force[fem.Axial]), math.Abs(r.Force[fem.Transverse])))
-			momentScale = math.Max(momentScale, math.Max(math.Abs(r.Force[fem.Rotation]), math.Abs(r.X*r.Force[fem.Transverse])))
-		}
-	}
-	for _, g := range s.Foundations {
-		forceScale = math.Max(forceScale, math.Max(math.Abs(g.Force[0]), math.Abs(g.Force[1])))
-		momentScale = math.Max(momentScale, math.Abs(g.Moment))
-	}
-	f, mo := m.ImposedScales()
-	forceScale, momentScale = math.Max(forceScale, f), math.Max(momentScale, mo)
+	forceScale, momentScale := s.EquilibriumScales(e)
 	directions := []struct {
 		name, what string
 		kind       units.Kind
@@ -79,9 +53,9 @@ func equilibriumChecks(m *fem.Model, s *fem.Solution, e *fem.Exact, o Options) [
 		r.Status = Pass
 		var parts []string
 		for k, b := range balances {
-			scale := math.Max(forceScale, momentScale/m.Length())
+			scale := forceScale
 			if i == 2 {
-				scale = math.Max(momentScale, forceScale*m.Length())
+				scale = momentScale
 			}
 			residual := b.Applied[i] + b.Reactions[i]
 			tolerance := equilibriumTolerance

@@ -52,13 +52,16 @@ func read(sol *fem.Solution, t Target) float64 {
 
 // Unloaded is a copy of m with its member, supports and hinges and none of
 // its loads: no point or distributed loads, cases, combinations,
-// self-weight, temperature change or settlements.
+// self-weight, temperature change or difference, or settlements.
 func Unloaded(m *fem.Model) fem.Model {
 	c := m.Clone()
 	c.PointLoads, c.DistributedLoad, c.Cases, c.Combinations = nil, nil, nil, nil
 	c.Gravity, c.TemperatureChange = [2]float64{}, 0
 	for i := range c.Supports {
 		c.Supports[i].Settlement = [3]float64{}
+	}
+	for i := range c.Segments {
+		c.Segments[i].TemperatureDifference = 0
 	}
 	return c
 }
