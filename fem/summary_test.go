@@ -264,15 +264,7 @@ func TestSummaryZeroesRoundOff(t *testing.T) {
 		PointLoads: []PointLoad{{X: L, Transverse: -P}},
 		Mesh:       MeshSettings{Elements: 7},
 	}
-	s, err := Solve(m)
-	if err != nil {
-		t.Fatal(err)
-	}
-	e, err := SolveExact(m)
-	if err != nil {
-		t.Fatal(err)
-	}
-	sum := Summarize(s, e)
+	sum := Summarize(solveBoth(t, m))
 	for _, q := range []Quantity{QBendingMoment, QBendingStress, QRotation} {
 		x := sum.Extremes[q]
 		if x.Max != 0 || x.FEMax != 0 {
@@ -299,15 +291,7 @@ func TestSummaryNamesTheFirstOfEqualPeaks(t *testing.T) {
 		DistributedLoad: []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -w}, {2 * L, -w}}}},
 		Mesh:            MeshSettings{Elements: 32},
 	}
-	s, err := Solve(m)
-	if err != nil {
-		t.Fatal(err)
-	}
-	e, err := SolveExact(m)
-	if err != nil {
-		t.Fatal(err)
-	}
-	sum := Summarize(s, e)
+	sum := Summarize(solveBoth(t, m))
 	mo := sum.Extremes[QBendingMoment]
 	if want := 9 * w * L * L / 128; math.Abs(mo.Max-want) > 1e-9*want || math.Abs(mo.XMax-3*L/8) > 1e-9*L {
 		t.Errorf("exact largest moment %g at %g m, want %g at %g m", mo.Max, mo.XMax, want, 3*L/8)
