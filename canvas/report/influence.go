@@ -316,7 +316,9 @@ func describeTrain(t *moving.Train, label string, L float64, u units.System) str
 		parts = append(parts, fmt.Sprintf("%s over %s from %s behind the front", u.Format(units.LineLoad, ul.Load), u.Format(units.Position, ul.Length), u.Format(units.Position, ul.Start)))
 	}
 	from, to := t.Run(L)
-	parts = append(parts, fmt.Sprintf("runs %s between x = %s and %s", directionWords(t.Direction), u.Format(units.Position, from), u.Format(units.Position, to)))
+	// Said every time: a train longer than about 0.6 of a span can give
+	// more with some axles off it, which a whole train on its run misses.
+	parts = append(parts, fmt.Sprintf("runs %s between x = %s and %s, wholly on that stretch at every position", directionWords(t.Direction), u.Format(units.Position, from), u.Format(units.Position, to)))
 	return label + ": " + strings.Join(parts, "; ")
 }
 

@@ -291,15 +291,15 @@ func TestDescribeTrain(t *testing.T) {
 		want  string
 	}{
 		{"axles", moving.Train{Axles: []moving.Axle{{Load: 10e3}, {Load: 20e3, Spacing: 1.5}}},
-			`t: 10.00 kN –1.500 m– 20.00 kN; runs both ways between x = 0 m and 8.000 m`},
+			`t: 10.00 kN –1.500 m– 20.00 kN; runs both ways between x = 0 m and 8.000 m, wholly on that stretch at every position`},
 		{"a uniform load alone", moving.Train{Uniform: moving.UniformLoad{Load: 5e3, Length: 2}, Direction: moving.Forward},
-			`t: 5.000 kN/m over 2.000 m from 0 m behind the front; runs forward (towards +x) between x = 0 m and 8.000 m`},
+			`t: 5.000 kN/m over 2.000 m from 0 m behind the front; runs forward (towards +x) between x = 0 m and 8.000 m, wholly on that stretch at every position`},
 		{"both", moving.Train{Axles: []moving.Axle{{Load: 10e3}}, Uniform: moving.UniformLoad{Load: 5e3, Start: 1, Length: 2}, From: 1, To: 7},
-			`t: 10.00 kN; 5.000 kN/m over 2.000 m from 1.000 m behind the front; runs both ways between x = 1.000 m and 7.000 m`},
+			`t: 10.00 kN; 5.000 kN/m over 2.000 m from 1.000 m behind the front; runs both ways between x = 1.000 m and 7.000 m, wholly on that stretch at every position`},
 		{"two equal after the first", moving.Train{Axles: []moving.Axle{{Load: 6e3}, {Load: 9e3, Spacing: 1.1}, {Load: 9e3, Spacing: 1.1}}},
-			`t: 6.000 kN –1.100 m– 9.000 kN –1.100 m– 9.000 kN; runs both ways between x = 0 m and 8.000 m`},
+			`t: 6.000 kN –1.100 m– 9.000 kN –1.100 m– 9.000 kN; runs both ways between x = 0 m and 8.000 m, wholly on that stretch at every position`},
 		{"a run of forty", long,
-			`t: 20.00 kN then 40 times –0.2500 m– 5.000 kN –1.000 m– 20.00 kN; 42 axles over 11.00 m; runs both ways between x = 0 m and 8.000 m`},
+			`t: 20.00 kN then 40 times –0.2500 m– 5.000 kN –1.000 m– 20.00 kN; 42 axles over 11.00 m; runs both ways between x = 0 m and 8.000 m, wholly on that stretch at every position`},
 	} {
 		if got := describeTrain(&c.train, "t", 8, units.SI); got != c.want {
 			t.Errorf("%s: %q, want %q", c.name, got, c.want)
