@@ -161,6 +161,11 @@ func TestDeflectionLeavesSettlementOut(t *testing.T) {
 		{"overhang, the far support settles", 6, []fem.Support{settled(fem.Pinned, 0, -0.01, 0), settled(fem.Roller, 5, 0, 0)}, "Deflection, cantilever", overhang},
 		{"span beside it, a support settles", 6, []fem.Support{settled(fem.Pinned, 0, -0.01, 0), settled(fem.Roller, 5, 0, 0)}, "Deflection, span", spanUp},
 		{"cantilever settled across and in rotation", 2, []fem.Support{settled(fem.Fixed, 0, -0.01, -0.002)}, "Deflection, cantilever", 5e3 * 8 / (3 * ei)},
+		// A support that holds rotation keeps its overhang from tilting when
+		// the far support settles: the overhang deflects as a cantilever of
+		// length a fixed there, P·a³/(3EI) (Gere & Goodno, Table G-1, from memory).
+		{"overhang at a fixed support, the far support settles", 6, []fem.Support{settled(fem.Pinned, 0, -0.01, 0), settled(fem.Fixed, 5, 0, 0)}, "Deflection, cantilever", 5e3 / (3 * ei)},
+		{"overhang at a fixed support turned by a settlement, the far support settles", 6, []fem.Support{settled(fem.Pinned, 0, -0.01, 0), settled(fem.Fixed, 5, 0, 0.003)}, "Deflection, cantilever", 5e3 / (3 * ei)},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {

@@ -177,9 +177,10 @@ func newChord(src fem.Field, st stretch, tilt float64) chordLine {
 }
 
 // settlementTilts is, per part, the slope (rad) at which settlements
-// alone tilt an overhang as a rigid body, and 0 for a span: the slope of
-// the chord of the span beside it, or, on a lone support that holds
-// rotation, the rotation it imposes. It is read off the finite element
+// alone tilt an overhang as a rigid body, and 0 for a span: on a support
+// that holds rotation, the rotation it imposes (a settlement elsewhere
+// bends the span beside it but cannot turn the overhang), else the slope
+// of the chord of the span beside it. It is read off the finite element
 // solution fe, whose held motions are the prescribed values exactly (a
 // load case's own settlements among them), so without settlements every
 // tilt is exactly 0.
@@ -193,11 +194,11 @@ func settlementTilts(fe fem.Field, m *fem.Model, parts []stretch) []float64 {
 		if !st.support[0] {
 			at, side, beside = st.b, fem.Left, k+1
 		}
-		if beside >= 0 && beside < len(parts) && !parts[beside].overhangs {
+		if holdsRotation(m, at) {
+			tilts[k] = fe.At(at, side).Rotation
+		} else if beside >= 0 && beside < len(parts) && !parts[beside].overhangs {
 			c := newChord(fe, parts[beside], 0)
 			tilts[k] = c.dw / c.span
-		} else if holdsRotation(m, at) {
-			tilts[k] = fe.At(at, side).Rotation
 		}
 	}
 	return tilts
