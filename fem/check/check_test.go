@@ -132,6 +132,12 @@ func TestCantileverDeflectionLimit(t *testing.T) {
 	if r := find(t, Run(&m, s, e, Options{}), "Stress"); r.Status != Info {
 		t.Errorf("no allowable given: status %v, want info", r.Status)
 	}
+	// A stricter limit for spans leaves a cantilever at length/180: the
+	// message must say so rather than call that limit the user's choice.
+	strict := find(t, Run(&m, s, e, Options{SpanRatio: 500}), "Deflection, cantilever")
+	if !near(strict.Limit, 2.0/180, 1e-12) || strings.Contains(strict.Message, "user choice") || !strings.Contains(strict.Message, "span/500") {
+		t.Errorf("span/500 set: cantilever limit %g; want L/180, with a message that names span/500 as not applying: %q", strict.Limit, strict.Message)
+	}
 }
 
 // A settlement moves an overhang or a cantilever as a rigid body, which the

@@ -134,9 +134,14 @@ func deflectionChecks(p *Probe, o Options) []Result {
 		if r.Value > r.Limit {
 			r.Status = Fail
 		}
-		r.Message = fmt.Sprintf("The largest deflection in this %s is %s at x = %s, measured from the line through the supports (settlement not counted), from %s. The limit %s/%g = %s is a user choice (common practice: span/360 for floors under live load, /240 under total load, length/180 for cantilevers). This deflection comes from every load in the model, self-weight included: compare it with a total-load limit, or model the live load alone for a live-load limit.",
+		choice := "is a user choice"
+		if st.overhangs {
+			// The file and the window set the span ratio only.
+			choice = fmt.Sprintf("applies to every cantilever and overhang, whatever the limit set for spans (span/%g)", o.SpanRatio)
+		}
+		r.Message = fmt.Sprintf("The largest deflection in this %s is %s at x = %s, measured from the line through the supports (settlement not counted), from %s. The limit %s/%g = %s %s (common practice: span/360 for floors under live load, /240 under total load, length/180 for cantilevers). This deflection comes from every load in the model, self-weight included: compare it with a total-load limit, or model the live load alone for a live-load limit.",
 			kind, o.Units.Format(units.Deflection, r.Value), o.Units.Format(units.Position, r.X), p.fromWhat(),
-			kind, n, o.Units.Format(units.Deflection, r.Limit))
+			kind, n, o.Units.Format(units.Deflection, r.Limit), choice)
 		if st.overhangs {
 			r.Message += " For a cantilever or an overhang the limit uses its own length, and the deflection includes the tilt of the beam over the support."
 		}
