@@ -343,6 +343,7 @@ func (v *validator) segments(segs []Segment) {
 			v.add(at(ThermalExpansionProperty), fmt.Sprintf("segment %d: the thermal expansion coefficient is %v: enter a finite value in 1/K", i+1, a))
 		}
 		v.property(at(DepthProperty), "the depth", s.Section.Depth, "m", true)
+		v.depthAgainstFibre(at(DepthProperty), i, s.Section)
 		v.shearDeformation(i, s)
 		switch dt := s.TemperatureDifference; {
 		case !isFinite(dt):
@@ -351,6 +352,24 @@ func (v *validator) segments(segs []Segment) {
 			v.add(at(DepthProperty), fmt.Sprintf("segment %d has a temperature difference through its depth but no depth to spread it over: enter the section's depth (or its extreme fibre distance, for a symmetric section)", i+1))
 		}
 		v.segmentStiffness(it, s)
+	}
+}
+
+// depthAgainstFibre refuses a depth h that the extreme fibre distance c
+// cannot belong to: c is the distance to the farther face, so c ≤ h ≤ 2c.
+// Below c the extreme fibre lies outside the section; beyond 2c the other
+// face is farther than c, and M·c/I would understate its stress.
+func (v *validator) depthAgainstFibre(at Place, i int, s Section) {
+	h, c := s.Depth, s.FibreDistance
+	if !(h > 0 && c > 0) || !isFinite(h) || !isFinite(c) {
+		return // no depth given, or a problem reported already
+	}
+	const slack = 1e-9 // for values entered to a few figures
+	switch {
+	case h < c*(1-slack):
+		v.add(at, fmt.Sprintf("segment %d: the depth h = %s m is less than the extreme fibre distance c = %s m, which must lie within the section: check both (c runs from the neutral axis to the farther face)", i+1, fmtNumber(h), fmtNumber(c)))
+	case h > 2*c*(1+slack):
+		v.add(at, fmt.Sprintf("segment %d: the depth h = %s m is more than twice the extreme fibre distance c = %s m, so the other face lies %s m from the neutral axis, farther than c, and the bending stress M·c/I would understate the stress there: enter as c the distance to the farther face", i+1, fmtNumber(h), fmtNumber(c), fmtNumber(h-c)))
 	}
 }
 

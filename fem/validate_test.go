@@ -41,6 +41,12 @@ func TestValidate(t *testing.T) {
 		{"zero area", func(m *Model) { m.Segments[0].Section.Area = 0 }, place(SegmentItem, 0, AreaProperty), "the area A is 0.0 m²"},
 		{"zero I", func(m *Model) { m.Segments[1].Section.SecondMoment = 0 }, place(SegmentItem, 1, SecondMomentProperty), "segment 2: the second moment of area I"},
 		{"negative c", func(m *Model) { m.Segments[1].Section.FibreDistance = -0.1 }, place(SegmentItem, 1, FibreDistanceProperty), "extreme fibre distance c is -0.1 m"},
+		// c is the distance to the extreme fibre, the farther face, so the
+		// depth h between the faces lies between c and 2c (definition of the
+		// extreme fibre distance in S = I/c; Gere & Goodno, Mechanics of
+		// Materials, ch. 5, from memory). testC = 0.15 m.
+		{"depth below c", func(m *Model) { m.Segments[1].Section.Depth = 0.1 }, place(SegmentItem, 1, DepthProperty), "segment 2: the depth h = 0.1 m is less than the extreme fibre distance c = 0.15 m"},
+		{"depth beyond 2c", func(m *Model) { m.Segments[0].Section.Depth = 0.4 }, place(SegmentItem, 0, DepthProperty), "segment 1: the depth h = 0.4 m is more than twice the extreme fibre distance c = 0.15 m"},
 		{"NaN E", func(m *Model) { m.Segments[0].Material.Elastic = nan }, place(SegmentItem, 0, ElasticProperty), "is NaN: enter a finite value in Pa"},
 		{"negative density", func(m *Model) { m.Segments[0].Material.Density = -1 }, place(SegmentItem, 0, DensityProperty), "must be zero or positive"},
 		{"negative allowable", func(m *Model) { m.Segments[0].Material.Allowable = -1 }, place(SegmentItem, 0, AllowableProperty), "the allowable stress is -1.0 Pa"},
