@@ -504,3 +504,55 @@ func extremeOf(s fem.Summary, q fem.Quantity) (fem.Extreme, bool) {
 	}
 	return fem.Extreme{}, false
 }
+
+// An extreme at a key point (a support, the end of the member) is reported
+// at that point to the bit, not at start + length of the interval before it,
+// which can miss it by a unit in the last place (0.95 + (3.9 − 0.95) =
+// 3.9000000000000004): read there, the field must give the reported value,
+// not that of the far side of a jump. The values themselves are statics:
+// P·a at the support of a cantilever.
+func TestExtremeAtKeyPointNamesIt(t *testing.T) {
+	const P = -10e3
+	cases := []struct {
+		name     string
+		model    fem.Model
+		q        fem.Quantity // its smallest value is checked
+		x, value float64
+	}{
+		{"cantilever fixed at its right end x = 3.9 m, load at 0.95 m", fem.Model{Segments: refMember(3.9),
+			Supports: []fem.Support{{X: 3.9, Kind: fem.Fixed}}, PointLoads: []fem.PointLoad{{X: 0.95, Transverse: P}}},
+			fem.QBendingMoment, 3.9, P * (3.9 - 0.95)},
+		{"cantilever past a fixed support at x = 3.9 m, load at its end", fem.Model{Segments: refMember(6),
+			Supports:   []fem.Support{{X: 0.95, Kind: fem.Pinned}, {X: 3.9, Kind: fem.Fixed}},
+			PointLoads: []fem.PointLoad{{X: 6, Transverse: P}}},
+			fem.QBendingMoment, 3.9, P * (6 - 3.9)},
+	}
+	for _, c := range cases {
+		for _, elements := range []int{0, 1} {
+			m := c.model
+			m.Mesh = fem.MeshSettings{Elements: elements}
+			sol, err := fem.Solve(&m)
+			if err != nil {
+				t.Fatalf("%s: %v", c.name, err)
+			}
+			ex, err := fem.SolveExact(&m)
+			if err != nil {
+				t.Fatalf("%s: %v", c.name, err)
+			}
+			e, _ := extremeOf(fem.Summarize(sol, ex), c.q)
+			for _, r := range []struct {
+				solution string
+				field    fem.Field
+				value, x float64
+			}{{"exact", ex, e.Min, e.XMin}, {"finite element", sol, e.FEMin, e.FEXMin}} {
+				atLeft, atRight := r.field.At(r.x, fem.Left), r.field.At(r.x, fem.Right)
+				left, right := c.q.Of(&atLeft), c.q.Of(&atRight)
+				tol := roundOff * math.Abs(c.value)
+				if r.x != c.x || !(math.Abs(r.value-c.value) <= tol) || !(math.Abs(left-r.value) <= tol || math.Abs(right-r.value) <= tol) {
+					t.Errorf("%s, %d elements, %s: %v %.10g reported at x = %v m (read there: %.10g left, %.10g right); want %.10g at x = %v m",
+						c.name, elements, r.solution, c.q, r.value, r.x, left, right, c.value, c.x)
+				}
+			}
+		}
+	}
+}
