@@ -55,9 +55,9 @@ type closedInterval struct {
 }
 
 // setClosed makes v the exact fields on t ∈ [t0, t0 + span] of stretch s,
-// an interval from start (m) of length h (m), read in closed form.
-func (v *Interval) setClosed(s *exactStretch, t0, span, start, h float64) {
-	v.Start, v.Length = start, h
+// an interval from start to end (m), read in closed form.
+func (v *Interval) setClosed(s *exactStretch, t0, span, start, end float64) {
+	v.Start, v.Length, v.end = start, end-start, end
 	v.closed.stretch, v.closed.t0, v.closed.span = s, t0, span
 	v.closed.samples = v.closed.samples[:0]
 	for q := range v.degree {

@@ -34,6 +34,7 @@ type Exact struct {
 // exactStretch is the part of the member between two neighbouring key points.
 type exactStretch struct {
 	start, length float64 // m
+	end           float64 // the key point it ends at, m (start + length may miss it)
 	area, fibre   float64 // A (m²) and c (m) of its segment
 	secondMoment  float64 // I, m⁴
 	thermalStrain float64 // α·ΔT
@@ -468,7 +469,7 @@ func newStretch(m *Model, l *Loads, j int) exactStretch {
 	seg := m.Segments[m.SegmentAt(0.5*(a+b))]
 	sec, mat := seg.Section, seg.Material
 	s := exactStretch{
-		start: a, length: b - a,
+		start: a, length: b - a, end: b,
 		area: sec.Area, fibre: sec.FibreDistance, secondMoment: sec.SecondMoment,
 		thermalStrain: mat.ThermalExpansion * l.TemperatureChange,
 	}

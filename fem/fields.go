@@ -153,7 +153,7 @@ func (s *Solution) elementInterval(e int, v *Interval) {
 		}
 	}
 	g := &s.fields[e]
-	v.Start, v.Length = el.Start, h
+	v.Start, v.Length, v.end = el.Start, h, el.End
 	v.solution, v.element = s, e
 	p := &v.poly
 	ea, ei := sec.axialRigidity, sec.flexuralRigidity

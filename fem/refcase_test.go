@@ -117,6 +117,19 @@ func scalesOf(m *fem.Model) memberScales {
 	for _, p := range m.PointLoads {
 		s.force += math.Abs(p.Axial) + math.Abs(p.Transverse) + math.Abs(p.Moment)/s.length
 	}
+	// A settlement loads the member by the force that would force it on a
+	// member fixed at both ends: 12EI·Δ/L³ across, 6EI·θ/L² in rotation
+	// (slope-deflection, from memory), EA·u/L along.
+	var stiffest [2]float64 // largest EA and EI, N and N·m²
+	for _, g := range m.Segments {
+		stiffest[0] = math.Max(stiffest[0], g.Material.Elastic*g.Section.Area)
+		stiffest[1] = math.Max(stiffest[1], g.Material.Elastic*g.Section.SecondMoment)
+	}
+	L := s.length
+	for _, sp := range m.Supports {
+		d := sp.Settlement
+		s.force += math.Abs(d[0])*stiffest[0]/L + math.Abs(d[1])*12*stiffest[1]/(L*L*L) + math.Abs(d[2])*6*stiffest[1]/(L*L)
+	}
 	for _, d := range m.DistributedLoad {
 		for i := 1; i < len(d.Points); i++ {
 			a, b := d.Points[i-1], d.Points[i]

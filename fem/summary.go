@@ -177,7 +177,7 @@ func (x *extremes) Visit(v *ElementView) {
 	x.seen = true
 	fe := &v.FE
 	a, b := fe.End(0).values(), fe.End(1).values()
-	x0, x1 := fe.Start, fe.Start+fe.Length
+	x0, x1 := fe.Start, fe.X(1)
 	for q := range Quantity(polynomialQuantities) {
 		// Where no value inside can go beyond the extremes so far (a
 		// quantity that is linear, say), the ends, as Range would give them.
@@ -269,7 +269,7 @@ func exactExtremes(e *Exact) *extremes {
 		x.tie = *tie
 		for j := range e.stretches {
 			st := &e.stretches[j]
-			st.interval(0, 1, st.start, st.length, &v)
+			st.interval(0, 1, st.start, st.end, &v)
 			x.seen = true
 			for q := range Quantity(quantityCount) {
 				lo, hi := v.Range(q)

@@ -27,6 +27,10 @@ import (
 // made from the axial and the bending stress wherever it is read.
 type Interval struct {
 	Start, Length float64 // m
+	// end is where the interval ends, the key point or node itself: Start +
+	// Length may miss it by a unit in the last place, and a position there
+	// must name the point, not the far side of a jump at it.
+	end float64
 	// ends are the fields at ξ = 0 and ξ = 1 (End), worked out when first
 	// asked for unless endsKnown.
 	ends      [2]Fields
@@ -64,7 +68,12 @@ func (v *Interval) Polynomial(q Quantity) (Polynomial, bool) {
 }
 
 // X is the position of local coordinate ξ, m.
-func (v *Interval) X(xi float64) float64 { return v.Start + xi*v.Length }
+func (v *Interval) X(xi float64) float64 {
+	if xi == 1 {
+		return v.end
+	}
+	return v.Start + xi*v.Length
+}
 
 // End is the fields at the start (i = 0) or the end (i = 1) of the
 // interval, seen from inside it; for an element exactly as
@@ -181,7 +190,7 @@ func (v *Interval) endsFromPolynomials() {
 	}
 	for i, at := range [2]*[polynomialQuantities]float64{&at0, &at1} {
 		f := &v.ends[i]
-		f.X = v.Start + float64(i)*v.Length
+		f.X = v.X(float64(i))
 		f.AxialDisplacement, f.Deflection, f.Rotation = at[QAxialDisplacement], at[QDeflection], at[QRotation]
 		f.AxialForce, f.ShearForce, f.BendingMoment = at[QAxialForce], at[QShearForce], at[QBendingMoment]
 		f.AxialStress, f.BendingStress = at[QAxialStress], at[QBendingStress]
@@ -400,7 +409,7 @@ func (c *exactCursor) interval(start, end float64, v *Interval) (*exactStretch, 
 	if start-s.start <= mergeTolerance*c.exact.keys[len(c.exact.keys)-1] {
 		t0 = 0
 	}
-	s.interval(t0, (end-start)/s.length, start, end-start, v)
+	s.interval(t0, (end-start)/s.length, start, end, v)
 	return s, moved
 }
 
@@ -455,14 +464,14 @@ var exactDegrees = [polynomialQuantities]int{
 }
 
 // interval sets v to the exact fields on t ∈ [t0, t0 + scale] of the
-// stretch, an interval starting at start (m) of length h (m): u and w
+// stretch, an interval from start to end (m): u and w
 // shifted to t0 (repeated synthetic division, Knuth, TAOCP vol. 2, 4.6.4,
 // from memory) and scaled to the interval, the rest their derivatives.
 // The coefficients are written one by one: a walk calls this for every
 // element.
-func (s *exactStretch) interval(t0, scale, start, h float64, v *Interval) {
+func (s *exactStretch) interval(t0, scale, start, end float64, v *Interval) {
 	if !s.polynomial() {
-		v.setClosed(s, t0, scale, start, h)
+		v.setClosed(s, t0, scale, start, end)
 		return
 	}
 	v.closed.stretch = nil
@@ -473,6 +482,7 @@ func (s *exactStretch) interval(t0, scale, start, h float64, v *Interval) {
 	w[0], w[1], w[2], w[3], w[4], w[5] = d[0], d[1], d[2], d[3], d[4], d[5]
 	cubicTaylorShift(u, t0, scale)
 	taylorShift(w, t0, scale)
+	h := end - start
 	ih := 1 / h
 	ea, ei := s.bar.stiffness*ih, s.beam.stiffness*ih*ih
 	ia, ci := 1/s.area, s.fibre/s.secondMoment
@@ -500,7 +510,7 @@ func (s *exactStretch) interval(t0, scale, start, h float64, v *Interval) {
 	sa, sb := &p[QAxialStress], &p[QBendingStress]
 	sa[0], sa[1], sa[2] = n[0]*ia, n[1]*ia, n[2]*ia
 	sb[0], sb[1], sb[2], sb[3] = m[0]*ci, m[1]*ci, m[2]*ci, m[3]*ci
-	v.Start, v.Length = start, h
+	v.Start, v.Length, v.end = start, end-start, end
 	v.degree = exactDegrees
 	v.known, v.endsKnown, v.oneFibre = 0, false, false
 }
@@ -552,7 +562,7 @@ func (e *Exact) Intervals() []Interval {
 	out := make([]Interval, len(e.stretches))
 	for j := range e.stretches {
 		s := &e.stretches[j]
-		s.interval(0, 1, s.start, s.length, &out[j])
+		s.interval(0, 1, s.start, s.end, &out[j])
 	}
 	return out
 }

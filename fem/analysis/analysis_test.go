@@ -386,6 +386,37 @@ func TestShearAreaAboveTheArea(t *testing.T) {
 	}
 }
 
+// A depth that the extreme fibre distance c cannot belong to is a caution,
+// and the model is still solved as entered: c runs to the farther face, so
+// c ≤ h ≤ 2c (the extreme fibre of S = I/c; Gere & Goodno, Mechanics of
+// Materials, ch. 5, from memory). c = 0.15 m here.
+func TestDepthAgainstTheFibreDistance(t *testing.T) {
+	held := []fem.Support{{X: 0, Kind: fem.Fixed}}
+	load := []fem.PointLoad{{X: 3, Transverse: -1e4}}
+	for _, c := range []struct {
+		name  string
+		depth float64
+		want  []string
+	}{
+		{"left out (2c)", 0, nil},
+		{"symmetric", 0.3, nil},
+		{"unsymmetric", 0.2, nil},
+		{"below c", 0.1, []string{"depth of segment 1"}},
+		{"beyond 2c", 0.4, []string{"depth of segment 1"}},
+	} {
+		seg := fem.Segment{Start: 0, End: 3, TemperatureDifference: 10,
+			Section:  fem.Section{Area: 0.01, SecondMoment: 1e-4, FibreDistance: 0.15, Depth: c.depth},
+			Material: fem.Material{Elastic: 210e9, ThermalExpansion: 12e-6}}
+		var got []string
+		for _, f := range materialFindings(t, fem.Model{Segments: []fem.Segment{seg}, Supports: held, PointLoads: load}) {
+			got = append(got, f.Name)
+		}
+		if !slices.Equal(got, c.want) {
+			t.Errorf("%s: findings of code material %q, want %q", c.name, got, c.want)
+		}
+	}
+}
+
 // materialFindings are the findings of code material of m, analysed in full.
 func materialFindings(t *testing.T, m fem.Model) []Finding {
 	t.Helper()

@@ -106,6 +106,7 @@ func (a *Analysis) Findings() []Finding {
 	}
 	out = append(out, thermalFindings(&a.Model)...)
 	out = append(out, shearAreaFindings(&a.Model)...)
+	out = append(out, depthFindings(&a.Model)...)
 	if a.Solution == nil {
 		return out
 	}
@@ -189,6 +190,37 @@ func shearAreaFindings(m *fem.Model) []Finding {
 		}
 		f := finding(CodeMaterial, fmt.Sprintf("shear area of segment %d", i+1),
 			fmt.Sprintf("Segment %d deforms in shear with a %s, more than its cross-section area of %s m²: the area carrying the shear is a part of the section (κ = 5/6 for a solid rectangle, about the web's share for an I-section), so check its units; too large a one leaves out shear deflection.", i+1, what, units.FormatNumber(s.Section.Area)))
+		f.Span = [2]float64{s.Start, s.End}
+		out = append(out, f)
+	}
+	return out
+}
+
+// depthFindings are the cautions that a segment's depth h, given, does not
+// fit its extreme fibre distance c: c runs from the neutral axis to the
+// farther face, so c ≤ h ≤ 2c (the extreme fibre of S = I/c; Gere &
+// Goodno, Mechanics of Materials, ch. 5, from memory). Below c the extreme
+// fibre lies outside the section; beyond 2c the other face is farther
+// than c, and M·c/I understates the stress there. Either may be a typing
+// error in h or in c, so the model is solved as entered and the caution
+// says which to check.
+func depthFindings(m *fem.Model) []Finding {
+	var out []Finding
+	const slack = 1e-9 // for values entered to a few figures
+	for i, s := range m.Segments {
+		h, c := s.Section.Depth, s.Section.FibreDistance
+		var msg string
+		switch {
+		case !(h > 0 && c > 0):
+			continue // no depth given
+		case h < c*(1-slack):
+			msg = fmt.Sprintf("Segment %d's depth h = %s m is less than its extreme fibre distance c = %s m, which must lie within the section: check both (c runs from the neutral axis to the farther face).", i+1, units.FormatNumber(h), units.FormatNumber(c))
+		case h > 2*c*(1+slack):
+			msg = fmt.Sprintf("Segment %d's depth h = %s m is more than twice its extreme fibre distance c = %s m, so its other face lies %s m from the neutral axis, farther than c: the bending stress M·c/I understates the stress there. Enter as c the distance to the farther face, or check h (a temperature difference bends the segment over h).", i+1, units.FormatNumber(h), units.FormatNumber(c), units.FormatNumber(h-c))
+		default:
+			continue
+		}
+		f := finding(CodeMaterial, fmt.Sprintf("depth of segment %d", i+1), msg)
 		f.Span = [2]float64{s.Start, s.End}
 		out = append(out, f)
 	}

@@ -132,6 +132,12 @@ func TestCantileverDeflectionLimit(t *testing.T) {
 	if r := find(t, Run(&m, s, e, Options{}), "Stress"); r.Status != Info {
 		t.Errorf("no allowable given: status %v, want info", r.Status)
 	}
+	// A stricter limit for spans leaves a cantilever at length/180: the
+	// message must say so rather than call that limit the user's choice.
+	strict := find(t, Run(&m, s, e, Options{SpanRatio: 500}), "Deflection, cantilever")
+	if !near(strict.Limit, 2.0/180, 1e-12) || strings.Contains(strict.Message, "user choice") || !strings.Contains(strict.Message, "span/500") {
+		t.Errorf("span/500 set: cantilever limit %g; want L/180, with a message that names span/500 as not applying: %q", strict.Limit, strict.Message)
+	}
 }
 
 // A settlement moves an overhang or a cantilever as a rigid body, which the
@@ -161,6 +167,11 @@ func TestDeflectionLeavesSettlementOut(t *testing.T) {
 		{"overhang, the far support settles", 6, []fem.Support{settled(fem.Pinned, 0, -0.01, 0), settled(fem.Roller, 5, 0, 0)}, "Deflection, cantilever", overhang},
 		{"span beside it, a support settles", 6, []fem.Support{settled(fem.Pinned, 0, -0.01, 0), settled(fem.Roller, 5, 0, 0)}, "Deflection, span", spanUp},
 		{"cantilever settled across and in rotation", 2, []fem.Support{settled(fem.Fixed, 0, -0.01, -0.002)}, "Deflection, cantilever", 5e3 * 8 / (3 * ei)},
+		// A support that holds rotation keeps its overhang from tilting when
+		// the far support settles: the overhang deflects as a cantilever of
+		// length a fixed there, P·a³/(3EI) (Gere & Goodno, Table G-1, from memory).
+		{"overhang at a fixed support, the far support settles", 6, []fem.Support{settled(fem.Pinned, 0, -0.01, 0), settled(fem.Fixed, 5, 0, 0)}, "Deflection, cantilever", 5e3 / (3 * ei)},
+		{"overhang at a fixed support turned by a settlement, the far support settles", 6, []fem.Support{settled(fem.Pinned, 0, -0.01, 0), settled(fem.Fixed, 5, 0, 0.003)}, "Deflection, cantilever", 5e3 / (3 * ei)},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {

@@ -134,9 +134,14 @@ func deflectionChecks(p *Probe, o Options) []Result {
 		if r.Value > r.Limit {
 			r.Status = Fail
 		}
-		r.Message = fmt.Sprintf("The largest deflection in this %s is %s at x = %s, measured from the line through the supports (settlement not counted), from %s. The limit %s/%g = %s is a user choice (common practice: span/360 for floors under live load, /240 under total load, length/180 for cantilevers). This deflection comes from every load in the model, self-weight included: compare it with a total-load limit, or model the live load alone for a live-load limit.",
+		choice := "is a user choice"
+		if st.overhangs {
+			// The file and the window set the span ratio only.
+			choice = fmt.Sprintf("applies to every cantilever and overhang, whatever the limit set for spans (span/%g)", o.SpanRatio)
+		}
+		r.Message = fmt.Sprintf("The largest deflection in this %s is %s at x = %s, measured from the line through the supports (settlement not counted), from %s. The limit %s/%g = %s %s (common practice: span/360 for floors under live load, /240 under total load, length/180 for cantilevers). This deflection comes from every load in the model, self-weight included: compare it with a total-load limit, or model the live load alone for a live-load limit.",
 			kind, o.Units.Format(units.Deflection, r.Value), o.Units.Format(units.Position, r.X), p.fromWhat(),
-			kind, n, o.Units.Format(units.Deflection, r.Limit))
+			kind, n, o.Units.Format(units.Deflection, r.Limit), choice)
 		if st.overhangs {
 			r.Message += " For a cantilever or an overhang the limit uses its own length, and the deflection includes the tilt of the beam over the support."
 		}
@@ -177,9 +182,10 @@ func newChord(src fem.Field, st stretch, tilt float64) chordLine {
 }
 
 // settlementTilts is, per part, the slope (rad) at which settlements
-// alone tilt an overhang as a rigid body, and 0 for a span: the slope of
-// the chord of the span beside it, or, on a lone support that holds
-// rotation, the rotation it imposes. It is read off the finite element
+// alone tilt an overhang as a rigid body, and 0 for a span: on a support
+// that holds rotation, the rotation it imposes (a settlement elsewhere
+// bends the span beside it but cannot turn the overhang), else the slope
+// of the chord of the span beside it. It is read off the finite element
 // solution fe, whose held motions are the prescribed values exactly (a
 // load case's own settlements among them), so without settlements every
 // tilt is exactly 0.
@@ -193,11 +199,11 @@ func settlementTilts(fe fem.Field, m *fem.Model, parts []stretch) []float64 {
 		if !st.support[0] {
 			at, side, beside = st.b, fem.Left, k+1
 		}
-		if beside >= 0 && beside < len(parts) && !parts[beside].overhangs {
+		if holdsRotation(m, at) {
+			tilts[k] = fe.At(at, side).Rotation
+		} else if beside >= 0 && beside < len(parts) && !parts[beside].overhangs {
 			c := newChord(fe, parts[beside], 0)
 			tilts[k] = c.dw / c.span
-		} else if holdsRotation(m, at) {
-			tilts[k] = fe.At(at, side).Rotation
 		}
 	}
 	return tilts
