@@ -36,6 +36,7 @@ type movingWindow struct {
 	trainSelect *widget.Select
 	name        *widget.Entry
 	direction   *widget.Select
+	offEnds     *widget.Check
 	from, to    *widget.Entry
 	step        *widget.Entry
 	axles       *fyne.Container
@@ -113,6 +114,7 @@ func (mw *movingWindow) build() {
 	})
 	mw.name = widget.NewEntry()
 	mw.direction = widget.NewSelect([]string{"both", "forward", "backward"}, nil)
+	mw.offEnds = widget.NewCheck("Drives on and off at the member's ends", nil)
 	mw.from, mw.to, mw.step = widget.NewEntry(), widget.NewEntry(), widget.NewEntry()
 	mw.to.SetPlaceHolder("the member's end")
 	mw.step.SetPlaceHolder("from the mesh")
@@ -126,6 +128,7 @@ func (mw *movingWindow) build() {
 		widget.NewLabel("Moves"), mw.direction,
 		widget.NewLabel("From x"), mw.from,
 		widget.NewLabel("To x"), mw.to,
+		widget.NewLabel(""), mw.offEnds,
 		widget.NewLabel("Step"), mw.step,
 	)
 	uniform := container.New(layout.NewFormLayout(),
@@ -225,6 +228,7 @@ func (mw *movingWindow) choose(i int) {
 	mw.direction.SetSelected(t.Direction.String())
 	mw.from.SetText(formatOrEmpty(u, units.Position, t.From, false))
 	mw.to.SetText(formatOrEmpty(u, units.Position, t.To, true))
+	mw.offEnds.SetChecked(t.OffEnds)
 	mw.step.SetText(formatOrEmpty(u, units.Position, t.Step, true))
 	mw.axles.RemoveAll()
 	mw.axleRows = nil
@@ -320,6 +324,7 @@ func (mw *movingWindow) readTrain() (moving.Train, error) {
 	t := moving.Train{Name: strings.TrimSpace(mw.name.Text)}
 	d, _ := moving.ParseDirection(mw.direction.Selected)
 	t.Direction = d
+	t.OffEnds = mw.offEnds.Checked
 	read := func(e *widget.Entry, k units.Kind, what string) (float64, error) {
 		if strings.TrimSpace(e.Text) == "" {
 			return 0, nil

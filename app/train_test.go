@@ -74,6 +74,12 @@ func TestMovingWindowEditsTheProject(t *testing.T) {
 	if w.project.Trains[0].Axles[1].Spacing != 2.5 || mw.status.Text == "" {
 		t.Errorf("a train longer than the member was applied; status %q", mw.status.Text)
 	}
+	// Driving on and off the member's ends, a train longer than it runs.
+	mw.offEnds.SetChecked(true)
+	mw.apply()
+	if tr := w.project.Trains[0]; !tr.OffEnds || tr.Axles[1].Spacing != 20 {
+		t.Errorf("checking the box and applying gave the train %+v, want one driving off the ends with a 20 m spacing", tr)
+	}
 }
 
 // Choosing a train with more axles lays the table out for all its rows:

@@ -17,6 +17,7 @@ type (
 		Uniform   *fileUniform `json:"uniform,omitempty"`
 		From      number       `json:"from,omitempty"`
 		To        number       `json:"to,omitempty"`
+		OffEnds   bool         `json:"off_ends,omitempty"`
 		Direction string       `json:"direction,omitempty"`
 		Step      number       `json:"step,omitempty"`
 	}
@@ -37,7 +38,7 @@ func (c *converter) trains(ts []moving.Train) []fileTrain {
 	var out []fileTrain
 	for i, t := range ts {
 		path := fmt.Sprintf("trains[%d]", i)
-		ft := fileTrain{Name: t.Name, From: c.num(path+".from", t.From), To: c.num(path+".to", t.To), Step: c.num(path+".step", t.Step)}
+		ft := fileTrain{Name: t.Name, From: c.num(path+".from", t.From), To: c.num(path+".to", t.To), OffEnds: t.OffEnds, Step: c.num(path+".step", t.Step)}
 		if t.Direction != moving.BothWays {
 			ft.Direction = t.Direction.String()
 			if ft.Direction == "unknown" {
@@ -75,6 +76,7 @@ func (r *reader) trains(top *fields) []moving.Train {
 			u.finish()
 		}
 		t.From, t.To = f.number("from", "m", false), f.number("to", "m", false)
+		t.OffEnds = f.flag("off_ends", false)
 		name := f.text("direction", false, "")
 		if f.holds("direction", stringNode) {
 			d, ok := moving.ParseDirection(name)

@@ -16,7 +16,7 @@ import (
 func TestTrainsRoundTrip(t *testing.T) {
 	p := goldenProject()
 	p.Trains = []moving.Train{
-		{Name: "hoist trolley", Axles: []moving.Axle{{Load: 18e3}, {Load: 18e3, Spacing: 1.2}}, Direction: moving.Forward, Step: 0.05},
+		{Name: "hoist trolley", Axles: []moving.Axle{{Load: 18e3}, {Load: 18e3, Spacing: 1.2}}, Direction: moving.Forward, OffEnds: true, Step: 0.05},
 		{Axles: []moving.Axle{{Load: 5e3}}, Uniform: moving.UniformLoad{Load: 2e3, Start: 0.5, Length: 1.5}, From: 0.5, To: 3.5},
 	}
 	data := mustMarshal(t, p)
@@ -32,6 +32,7 @@ func TestTrainsRoundTrip(t *testing.T) {
           "spacing": 1.2
         }
       ],
+      "off_ends": true,
       "direction": "forward",
       "step": 0.05
     },

@@ -318,7 +318,16 @@ func describeTrain(t *moving.Train, label string, L float64, u units.System) str
 	from, to := t.Run(L)
 	// Said every time: a train longer than about 0.6 of a span can give
 	// more with some axles off it, which a whole train on its run misses.
-	parts = append(parts, fmt.Sprintf("runs %s between x = %s and %s, wholly on that stretch at every position", directionWords(t.Direction), u.Format(units.Position, from), u.Format(units.Position, to)))
+	on := "wholly on that stretch at every position"
+	switch start, end := t.OffAt(L); {
+	case start && end:
+		on = "driving on and off the member at both its ends"
+	case start:
+		on = "driving on and off the member at x = 0"
+	case end:
+		on = "driving on and off the member at its far end"
+	}
+	parts = append(parts, fmt.Sprintf("runs %s between x = %s and %s, %s", directionWords(t.Direction), u.Format(units.Position, from), u.Format(units.Position, to), on))
 	return label + ": " + strings.Join(parts, "; ")
 }
 

@@ -306,24 +306,15 @@ func feReading(m *fem.Model, t *moving.Train, q fem.Quantity, ex moving.Extreme)
 	return best, nil
 }
 
-// onRun reports whether every load of t at p stands on its run on a
-// member of length L.
+// onRun reports whether p is one of t's positions on a member of length
+// L: its front within the range the train's fronts take (Train.Fronts,
+// the mirror range for a train moving backward).
 func onRun(t *moving.Train, p moving.Placement, L float64) bool {
-	from, to := t.Run(L)
-	points, lines := t.Loads(p)
-	for _, a := range points {
-		if a.X < from || a.X > to {
-			return false
-		}
+	lo, hi := t.Fronts(L)
+	if p.Direction == moving.Backward {
+		lo, hi = lo-t.Length(), hi-t.Length()
 	}
-	for _, d := range lines {
-		for _, v := range d.Points {
-			if v.X < from || v.X > to {
-				return false
-			}
-		}
-	}
-	return true
+	return p.Front >= lo && p.Front <= hi
 }
 
 // TrainEnvelopes are the envelopes of every train of p, each extreme

@@ -86,13 +86,14 @@ func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
 			summed = 0
 		}
 		summed++
+		ns := slots(ls)
 		for k, ax := range r.axles {
-			move(ls, f[:n], &places[k], mid+ax.offset, ax.load, r.axleTerms[k*ls.pieces()*n:], full)
+			move(ls, f[:n], &places[k], mid+ax.offset, ax.load, r.axleTerms[k*ns*n:], full)
 		}
 		if r.uniform {
 			for e, off := range ends {
 				sign := float64(2*e - 1) // the integral to the far end less that to the near one
-				move(ls, f[:n], &places[len(r.axles)+e], mid+off, sign*r.q, r.uniformTerms[e*ls.pieces()*n:], full)
+				move(ls, f[:n], &places[len(r.axles)+e], mid+off, sign*r.q, r.uniformTerms[e*ns*n:], full)
 			}
 		}
 		for i := range n {
@@ -122,10 +123,11 @@ const (
 	resumEvery = 32
 )
 
-// move advances *place to the piece of ls holding sigma, where a load c
-// stands whose terms per piece are terms (len(f) lines a piece), and adds
-// c times its terms there to f; unless full, f already holds its terms on
-// the piece it leaves, which it trades for the new (nothing when it stays).
+// move advances *place to the slot of ls holding sigma (see terms), where a
+// load c stands whose terms per slot are terms (len(f) lines a slot), and
+// adds c times its terms there to f; unless full, f already holds its
+// terms on the slot it leaves, which it trades for the new (nothing when it
+// stays).
 func move(ls *lines, f []poly, place *int, sigma, c float64, terms []poly, full bool) {
 	n := len(f)
 	old := *place
@@ -149,22 +151,37 @@ func move(ls *lines, f []poly, place *int, sigma, c float64, terms []poly, full 
 // newton of that axle as a polynomial in ŝ (the axle at ŝ·ℓ + offset
 // standing on the piece), and for each end of the uniform load the
 // integral of each line from 0 to it.
+//
+// A load's terms take slots(ls) places: the pieces of ls between two more,
+// before the member (slot 0) and past it (the last), where a train that
+// drives off its ends (Train.OffEnds) has loads that carry nothing: an axle
+// there adds zero, an end of the uniform load the integral to that end of
+// the member.
 func (r *run) terms(ls *lines) {
 	n, np := ls.n, ls.pieces()
-	r.axleTerms = slices.Grow(r.axleTerms[:0], len(r.axles)*np*n)[:len(r.axles)*np*n]
+	ns := slots(ls)
+	r.axleTerms = slices.Grow(r.axleTerms[:0], len(r.axles)*ns*n)[:len(r.axles)*ns*n]
 	for k, ax := range r.axles {
+		at := r.axleTerms[k*ns*n : (k+1)*ns*n]
+		clear(at[:n])
+		clear(at[(ns-1)*n:])
 		for p := range np {
 			t := (ax.offset - ls.bounds[p]) / ls.length
 			for i := range n {
-				r.axleTerms[(k*np+p)*n+i] = ls.coef[p*n+i].shift(t)
+				at[(p+1)*n+i] = ls.coef[p*n+i].shift(t)
 			}
 		}
 	}
 	if !r.uniform {
 		return
 	}
-	r.uniformTerms = slices.Grow(r.uniformTerms[:0], 2*np*n)[:2*np*n]
+	r.uniformTerms = slices.Grow(r.uniformTerms[:0], 2*ns*n)[:2*ns*n]
 	for e, off := range [2]float64{r.u0, r.u1} {
+		ut := r.uniformTerms[e*ns*n : (e+1)*ns*n]
+		for i := range n {
+			ut[i] = poly{}
+			ut[(ns-1)*n+i] = poly{ls.integral(i, ls.bounds[np])}
+		}
 		for p := range np {
 			t := (off - ls.bounds[p]) / ls.length
 			for i := range n {
@@ -173,11 +190,15 @@ func (r *run) terms(ls *lines) {
 					phi[c] *= ls.length
 				}
 				phi[0] += ls.integ[p*n+i]
-				r.uniformTerms[(e*np+p)*n+i] = phi.shift(t)
+				ut[(p+1)*n+i] = phi.shift(t)
 			}
 		}
 	}
 }
+
+// slots is the number of places a load's terms take on ls: its pieces and
+// one before and one past the member (see terms).
+func slots(ls *lines) int { return ls.pieces() + 2 }
 
 // setKeys keeps the fronts where an axle or an end of the uniform load
 // passes one of the member's key points, within the run's positions and
@@ -241,11 +262,21 @@ func (r *run) mergeBreaks(ls *lines) []float64 {
 	return br
 }
 
-// advance moves *p on to the piece of ls holding sigma, which never lies
-// before it (the stretches of positions come in order).
+// advance moves *p on to the slot of ls holding sigma (see terms: slot 0
+// before the member, piece j in slot j + 1, then past it), which never lies
+// before it (the stretches of positions come in order). A load within the
+// key tolerance of an end of the member stands on it.
 func (ls *lines) advance(p *int, sigma float64) int {
-	for *p < ls.pieces()-1 && ls.bounds[*p+1] <= sigma {
+	np := ls.pieces()
+	tol := keyTolerance * ls.length
+	if *p == 0 && sigma >= ls.bounds[0]-tol {
+		*p = 1
+	}
+	for *p >= 1 && *p < np && ls.bounds[*p] <= sigma {
 		*p++
+	}
+	if *p == np && sigma > ls.bounds[np]+tol {
+		*p = np + 1
 	}
 	return *p
 }
@@ -267,11 +298,11 @@ func (r *run) scanJumps(ls *lines, hi, lo []extreme, sides []fem.Side) {
 			base := 0.0
 			for b, other := range r.axles {
 				if b != a {
-					base += other.load * ls.value(i, front+other.offset, fem.Right)
+					base += other.load * ls.valueOn(i, front+other.offset)
 				}
 			}
 			if r.uniform {
-				base += r.q * (ls.integral(i, front+r.u1) - ls.integral(i, front+r.u0))
+				base += r.q * (ls.integralOn(i, front+r.u1) - ls.integralOn(i, front+r.u0))
 			}
 			for _, side := range sides {
 				v := base + ax.load*ls.value(i, ls.at, side)
@@ -280,6 +311,22 @@ func (r *run) scanJumps(ls *lines, hi, lo []extreme, sides []fem.Side) {
 			}
 		}
 	}
+}
+
+// valueOn is line i with the load at x, from the right where it jumps, and
+// zero for a load off the member (a train partly off it, Train.OffEnds).
+func (ls *lines) valueOn(i int, x float64) float64 {
+	tol := keyTolerance * ls.length
+	if x < ls.bounds[0]-tol || x > ls.bounds[ls.pieces()]+tol {
+		return 0
+	}
+	return ls.value(i, x, fem.Right)
+}
+
+// integralOn is ∫ line i from the member's start to x, with x taken back
+// onto the member: a uniform load beyond its ends carries nothing.
+func (ls *lines) integralOn(i int, x float64) float64 {
+	return ls.integral(i, min(max(x, ls.bounds[0]), ls.bounds[ls.pieces()]))
 }
 
 // EnvelopeQuantities are the quantities a train's envelope holds: those a
@@ -611,9 +658,11 @@ func vertex(x, v []float64) (float64, bool) {
 }
 
 // underAxles are the points under the axles of position i and of the
-// positions either side of it in its run, in order.
+// positions either side of it in its run, in order, on the stretch of the
+// stations (an axle may stand off the member: Train.OffEnds).
 func (e *Envelope) underAxles(i int32) []float64 {
 	var out []float64
+	first, last := e.Stations[0], e.Stations[len(e.Stations)-1]
 	for _, r := range e.runs {
 		k := int(i - r.first)
 		if i < r.first || k >= r.n {
@@ -621,7 +670,9 @@ func (e *Envelope) underAxles(i int32) []float64 {
 		}
 		for j := max(k-1, 0); j <= min(k+1, r.n-1); j++ {
 			for _, ax := range r.axles {
-				out = append(out, r.front(j)+ax.offset)
+				if x := r.front(j) + ax.offset; x >= first && x <= last {
+					out = append(out, x)
+				}
 			}
 		}
 	}

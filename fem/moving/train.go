@@ -58,8 +58,15 @@ type Train struct {
 	Axles   []Axle
 	Uniform UniformLoad
 	// From and To bound the stretch the train runs along, m; To = 0 means
-	// the member's end. Every position keeps the whole train on it.
-	From, To  float64
+	// the member's end. Every position keeps the whole train on it, unless
+	// OffEnds.
+	From, To float64
+	// OffEnds lets the train drive on and off the member where its
+	// stretch reaches an end of the member: positions with only part of it
+	// on the member count too, its loads beyond the end carrying nothing
+	// (a vehicle crossing a span, not a trolley between end stops). A
+	// train longer than its stretch is then accepted.
+	OffEnds   bool
 	Direction Direction
 	// Step is the distance between positions, m; 0 derives it from the
 	// mesh (DerivedStep). It is shortened to divide the run evenly.
@@ -147,14 +154,42 @@ func (t *Train) Problems(L float64) []Problem {
 		return out
 	}
 	run, length := to-from, t.Length()
-	if length > run*(1+keyTolerance) {
+	if start, end := t.OffAt(L); length > run*(1+keyTolerance) && !start && !end {
 		add("", "the train is %s m long and does not fit on the %s m it runs along (x = %s to %s m): shorten the train or lengthen its run", trim(length), trim(run), trim(from), trim(to))
 		return out
 	}
-	if n := positions(run-length, t.Step); t.Step > 0 && n > MaxPositions {
-		add("step", "a step of %s m takes %d positions along the %s m the train can move; Stave takes at most %d: enter a step of at least %s m", trim(t.Step), n, trim(run-length), MaxPositions, trim((run-length)/(MaxPositions-1)))
+	lo, hi := t.Fronts(L)
+	if n := positions(hi-lo, t.Step); t.Step > 0 && n > MaxPositions {
+		add("step", "a step of %s m takes %d positions along the %s m the train can move; Stave takes at most %d: enter a step of at least %s m", trim(t.Step), n, trim(hi-lo), MaxPositions, trim((hi-lo)/(MaxPositions-1)))
 	}
 	return out
+}
+
+// OffAt reports whether t on a member of length L may drive off it at its
+// start and at its end: OffEnds, and its stretch reaches that end of the
+// member.
+func (t *Train) OffAt(L float64) (start, end bool) {
+	from, to := t.Run(L)
+	return t.OffEnds && from <= keyTolerance*L, t.OffEnds && to >= L*(1-keyTolerance)
+}
+
+// Fronts is the range of x its front takes on a member of length L, m,
+// facing forward (a train moving backward takes the mirror range about its
+// stretch): the whole train on its stretch, or where OffEnds lets it
+// leave the member at an end, from only its front on to only its last
+// load on.
+func (t *Train) Fronts(L float64) (lo, hi float64) {
+	from, to := t.Run(L)
+	length := t.Length()
+	lo, hi = from+length, to
+	start, end := t.OffAt(L)
+	if start {
+		lo = from
+	}
+	if end {
+		hi = to + length
+	}
+	return lo, hi
 }
 
 func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
@@ -283,10 +318,26 @@ func (t *Train) Loads(p Placement) ([]fem.PointLoad, []fem.DistributedLoad) {
 
 // Model is m's member and supports with the train at p as its only loads:
 // the model to solve the train at one position by finite elements and in
-// closed form.
+// closed form. The loads of a train partly off the member (OffEnds) are
+// left out beyond its ends, a uniform load cut at them.
 func (t *Train) Model(m *fem.Model, p Placement) fem.Model {
 	c := Unloaded(m)
-	c.PointLoads, c.DistributedLoad = t.Loads(p)
+	points, lines := t.Loads(p)
+	L := m.Length()
+	tol := keyTolerance * L
+	for _, a := range points {
+		if a.X >= -tol && a.X <= L+tol {
+			a.X = min(max(a.X, 0), L)
+			c.PointLoads = append(c.PointLoads, a)
+		}
+	}
+	for _, d := range lines {
+		a, b := max(d.Points[0].X, 0), min(d.Points[1].X, L)
+		if b-a > tol {
+			d.Points[0].X, d.Points[1].X = a, b
+			c.DistributedLoad = append(c.DistributedLoad, d)
+		}
+	}
 	return c
 }
 
@@ -319,25 +370,28 @@ func (t *Train) runs(L float64, mesh fem.Mesh) ([]run, error) {
 		return nil, err
 	}
 	from, to := t.Run(L)
-	length := t.Length()
+	lo, hi := t.Fronts(L)
+	free := max(hi-lo, 0)
 	step := t.Step
 	if step == 0 {
-		step = DerivedStep(mesh, from, to, length)
+		step = DerivedStep(mesh, from, to, to-from-free)
 	}
-	free := max(to-from-length, 0)
 	n := positions(free, step)
 	if n > 1 {
 		step = free / float64(n-1)
 	}
+	length := t.Length()
 	var out []run
 	for _, d := range []Direction{Forward, Backward} {
 		if t.Direction != BothWays && t.Direction != d {
 			continue
 		}
 		sign := -1.0
-		s0 := from + length
+		s0 := lo
 		if d == Backward {
-			sign, s0 = 1, from
+			// The mirror of the forward fronts about the stretch: the front
+			// at x stands where the forward train's last load stood.
+			sign, s0 = 1, lo-length
 		}
 		r := run{direction: d, s0: s0, step: step, n: n, first: int32(len(out) * n)}
 		r.tolerance = min(1e-9*L, step/4)

@@ -67,15 +67,25 @@ func TestEnvelopeAgainstEveryPosition(t *testing.T) {
 	for k := 1; k < 24; k++ {
 		long.Axles = append(long.Axles, Axle{Load: 10e3 + 3e3*float64(k%5), Spacing: 0.15 + 0.05*float64(k%3)})
 	}
-	for _, tr := range []*Train{{
+	three := Train{
 		Axles:   []Axle{{Load: 40e3}, {Load: 60e3, Spacing: 1.3}, {Load: 25e3, Spacing: 0.7}},
 		Uniform: UniformLoad{Load: 5e3, Start: 0.4, Length: 2.5},
 		From:    0.5, To: 9.5, Step: 0.05,
-	}, long} {
+	}
+	// Driving on and off the whole member (10 m): the front runs from 0 to
+	// 10 m past the train's length, the loads off the member carrying
+	// nothing; and the long train likewise, longer than any span.
+	off := three
+	off.From, off.To, off.OffEnds = 0, 0, true
+	longOff := *long
+	longOff.From, longOff.To, longOff.OffEnds = 0, 0, true
+	for _, tr := range []*Train{&three, long, &off, &longOff} {
 		everyPosition(t, tr)
 	}
 }
 
+// everyPosition checks tr's envelope on the knotty member against every
+// position one by one.
 func everyPosition(t *testing.T, tr *Train) {
 	m := knotty()
 	in := influence(t, m)
@@ -87,10 +97,19 @@ func everyPosition(t *testing.T, tr *Train) {
 	}
 	// The train is its length long (3 axles: 2.9 m, its uniform load ends
 	// 0.4 + 2.5 m behind the front), so its front moves over 9 m less
-	// that, a position every 0.05 m (3 axles: 6.1 m, 122 steps).
-	if want := int(math.Round((9-tr.Length())/0.05)) + 1; e.Positions != want || len(e.runs) != 2 {
+	// that, a position every 0.05 m (3 axles: 6.1 m, 122 steps); driving
+	// off the ends of the 10 m member, over 10 m and that.
+	free := 9 - tr.Length()
+	if tr.OffEnds {
+		free = 10 + tr.Length()
+	}
+	if want := int(math.Round(free/0.05)) + 1; e.Positions != want || len(e.runs) != 2 {
 		t.Fatalf("got %d positions in %d directions, want %d in 2", e.Positions, len(e.runs), want)
 	}
+	// A load off the member carries nothing (one on an end to round-off of
+	// the fronts' sums stands on it); a uniform load counts on the member.
+	on := func(x float64) bool { return x >= -1e-9 && x <= 10+1e-9 }
+	clip := func(x float64) float64 { return min(max(x, 0), 10) }
 	for q, qty := range EnvelopeQuantities {
 		var want [][2]extreme
 		scale := 0.0
@@ -103,9 +122,11 @@ func everyPosition(t *testing.T, tr *Train) {
 					for k := range r.n {
 						front := r.front(k)
 						for _, axleSide := range sides {
-							v := r.q * l.Integral(front+r.u0, front+r.u1)
+							v := r.q * l.Integral(clip(front+r.u0), clip(front+r.u1))
 							for _, a := range r.axles {
-								v += a.load * l.At(front+a.offset, axleSide)
+								if on(front + a.offset) {
+									v += a.load * l.At(front+a.offset, axleSide)
+								}
 							}
 							hi.most(v, r.first+int32(k))
 							lo.least(v, r.first+int32(k))
@@ -427,5 +448,45 @@ func TestWorstMomentOnACoarseStep(t *testing.T) {
 				t.Errorf("at x = %.9g with the front at %.9g; want x in %v with the front in %v", hi.X, hi.Placement.Front, c.at, c.fronts)
 			}
 		})
+	}
+}
+
+// Two equal loads P a distance d apart driving across a simple span L
+// (Train.OffEnds): once d > (2 − √2)·L, one load alone at midspan gives
+// the largest moment, P·L/4, more than both on the span can,
+// P·(2L − d)²/(8L) where they fit (absolute maximum moment under moving loads, Hibbeler,
+// Structural Analysis, ch. 6, from memory; both values by statics). A
+// train kept wholly on the span misses it, and one longer than the span
+// runs only when it may drive off.
+func TestTrainDrivingOnAndOff(t *testing.T) {
+	const L, P = 10.0, 10e3
+	m := beam(L, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: L, Kind: fem.Roller})
+	in := influence(t, m)
+	p, _ := fem.Prepare(m)
+	for _, c := range []struct {
+		d       float64
+		offEnds bool
+		want    float64
+	}{
+		{7, true, P * L / 4},
+		// Kept on the span, the rule's position (front at L/2 + 3d/4) is
+		// off it: the best is the front on the far support, the other load
+		// d before it, P·d·(L − d)/L under that one (statics).
+		{7, false, P * 7 * (L - 7) / L},
+		{12, true, P * L / 4},
+		{4, true, P * (2*L - 4) * (2*L - 4) / (8 * L)}, // d < 0.586·L: both on govern
+	} {
+		tr := &Train{Axles: []Axle{{Load: P}, {Load: P, Spacing: c.d}}, OffEnds: c.offEnds, Step: 0.05}
+		e, err := in.Envelope(tr, p.Mesh(), nil)
+		if err != nil {
+			t.Fatalf("d = %g m, off ends %v: %v", c.d, c.offEnds, err)
+		}
+		if hi, _ := e.Worst(fem.QBendingMoment); !near(hi.Value, c.want, 1e-9) {
+			t.Errorf("d = %g m, off ends %v: largest moment %.9g N·m at x = %g (front at %g), want %.9g", c.d, c.offEnds, hi.Value, hi.X, hi.Placement.Front, c.want)
+		}
+	}
+	long := &Train{Axles: []Axle{{Load: P}, {Load: P, Spacing: 12}}}
+	if _, err := in.Envelope(long, p.Mesh(), nil); err == nil || !strings.Contains(err.Error(), "does not fit") {
+		t.Errorf("a 12 m train kept on a 10 m span: %v, want it refused as not fitting", err)
 	}
 }
