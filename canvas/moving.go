@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"image/color"
 	"io"
+	"math"
 
 	"stave/fem"
 	"stave/fem/moving"
@@ -186,13 +187,15 @@ func (b *builder) envelopeBand(in MovingInput, bands *MovingBands) {
 		b.line(loadColour, 1.8, cur...)
 	}
 	whi, wlo := e.Worst(q)
+	size := max(math.Abs(whi.Value), math.Abs(wlo.Value))
 	for _, w := range []struct {
 		ex moving.Extreme
 		c  color.NRGBA
 		ay float32
 	}{{whi, largestColour, 1}, {wlo, smallestColour, 0}} {
-		// ay: the label goes above a largest value, below a smallest.
-		if w.ex.Value == 0 {
+		// ay: the label goes above a largest value, below a smallest. A
+		// value that is zero or round-off against the other is no peak.
+		if math.Abs(w.ex.Value) <= 1e-9*size {
 			continue
 		}
 		p := Point{b.sx(w.ex.X), toY(w.ex.Value)}
@@ -261,7 +264,11 @@ func (b *builder) influenceBand(in MovingInput, bands *MovingBands) {
 			c = smallestColour
 		}
 		points, _ := in.Train.Loads(w.Placement)
+		L := in.Model.Length()
 		for _, p := range points {
+			if p.X < 0 || p.X > L {
+				continue // off the member (a train driving off its ends): it carries nothing
+			}
 			v := l.At(p.X, fem.Right)
 			pt := Point{b.sx(p.X), toY(v)}
 			b.line(c, 1, Point{pt.X, mid}, pt)

@@ -97,3 +97,50 @@ func TestMovingPicture(t *testing.T) {
 		t.Error("the sheet is not a PDF")
 	}
 }
+
+// A train driving off the member's ends (two 10 kN axles 7 m apart on a
+// 10 m simple span, invented) at its worst position for the midspan moment
+// has its rear axle off the member: the influence line marks only the axle
+// on it, and the envelope's smallest moment, zero up to round-off on a
+// simple span under loads acting down (statics), is not labelled.
+func TestMovingPictureOffTheEnds(t *testing.T) {
+	seg := fem.Segment{End: 10, Section: fem.Section{Area: 5e-3, SecondMoment: 8e-5, FibreDistance: 0.15}, Material: fem.Material{Elastic: 2e11}}
+	m := &fem.Model{Segments: []fem.Segment{seg}, Supports: []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 10, Kind: fem.Roller}}, Mesh: fem.MeshSettings{Elements: 40}}
+	p, err := fem.Prepare(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	in, err := moving.New(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	tr := &moving.Train{Axles: []moving.Axle{{Load: 10e3}, {Load: 10e3, Spacing: 7}}, OffEnds: true, Direction: moving.Forward, Step: 0.05}
+	env, err := in.Envelope(tr, p.Mesh(), nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	target := moving.Target{Quantity: fem.QBendingMoment, X: 5}
+	line, err := in.Line(target)
+	if err != nil {
+		t.Fatal(err)
+	}
+	hi, lo, err := in.Worst(tr, p.Mesh(), target)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if hi.Placement.Front != 5 {
+		t.Fatalf("worst position for the midspan moment: front at %g m, want 5 m (one axle at midspan, the other off)", hi.Placement.Front)
+	}
+	s, _ := BuildMoving(MovingInput{Model: m, Units: units.SI, Train: tr, At: hi.Placement, Envelope: env, Quantity: 3, Line: line, Worst: []moving.Extreme{hi, lo}}, 1200, 700)
+	v := NewView(1200, 700)
+	v.Fit(m)
+	for _, it := range s.Items {
+		mark := it.Fill == largestColour || it.Fill == smallestColour
+		if it.Kind == Circle && mark && (it.Center.X < v.ToScreenX(0)-1 || it.Center.X > v.ToScreenX(10)+1) {
+			t.Errorf("a mark off the member at screen x %g (the member spans %g to %g)", it.Center.X, v.ToScreenX(0), v.ToScreenX(10))
+		}
+		if it.Kind == Text && strings.Contains(it.Text, "e-1") {
+			t.Errorf("round-off labelled: %q", it.Text)
+		}
+	}
+}
