@@ -358,12 +358,18 @@ func TestTemperatureWithoutExpansion(t *testing.T) {
 // A segment deforming in shear whose shear area exceeds its cross-section
 // area (κ above 1, or As given in the wrong units) is a caution: As = κ·A
 // with κ below 1 for every section (Timoshenko's shear coefficient, from
-// memory). Only such segments are named.
+// memory). Only such segments are named, and those that give a shear area
+// or κ without deforming in shear (they are not used).
 func TestShearAreaAboveTheArea(t *testing.T) {
 	segment := func(start, end, kappa, shearArea float64) fem.Segment {
 		return fem.Segment{Start: start, End: end, ShearDeformation: true,
 			Section:  fem.Section{Area: 0.01, SecondMoment: 1e-4, FibreDistance: 0.15, ShearCoefficient: kappa, ShearArea: shearArea},
 			Material: fem.Material{Elastic: 210e9, Poisson: 0.3}}
+	}
+	// rigid turns shear deformation off, leaving the shear properties.
+	rigid := func(s fem.Segment) fem.Segment {
+		s.ShearDeformation = false
+		return s
 	}
 	held := []fem.Support{{X: 0, Kind: fem.Fixed}}
 	load := []fem.PointLoad{{X: 3, Transverse: -1e4}}
@@ -375,6 +381,8 @@ func TestShearAreaAboveTheArea(t *testing.T) {
 		{"κ 5/6", []fem.Segment{segment(0, 3, 5.0/6, 0)}, nil},
 		{"κ 2", []fem.Segment{segment(0, 3, 2, 0)}, []string{"shear area of segment 1"}},
 		{"As in cm² as if m²", []fem.Segment{segment(0, 1, 5.0/6, 0), segment(1, 3, 0, 80)}, []string{"shear area of segment 2"}},
+		{"κ given, shear deformation off", []fem.Segment{rigid(segment(0, 3, 5.0/6, 0))}, []string{"shear area of segment 1"}},
+		{"neither", []fem.Segment{rigid(segment(0, 3, 0, 0))}, nil},
 	} {
 		var got []string
 		for _, f := range materialFindings(t, fem.Model{Segments: c.segs, Supports: held, PointLoads: load}) {

@@ -175,7 +175,9 @@ func thermalFindings(m *fem.Model) []Finding {
 // a shear area above its cross-section area: As = κ·A with κ below 1 for
 // every section (5/6 for a solid rectangle, about the web's share of A for
 // an I-section; Timoshenko's shear coefficient, from memory), so a larger
-// one is most likely in the wrong units, and it hides the shear deflection.
+// one is most likely in the wrong units, and it hides the shear deflection;
+// and that a segment gives a shear area or κ but does not deform in shear,
+// so they are not used.
 func shearAreaFindings(m *fem.Model) []Finding {
 	var out []Finding
 	for i, s := range m.Segments {
@@ -185,11 +187,16 @@ func shearAreaFindings(m *fem.Model) []Finding {
 			as = s.Section.ShearCoefficient * s.Section.Area
 			what = fmt.Sprintf("shear coefficient κ = %s", units.FormatNumber(s.Section.ShearCoefficient))
 		}
-		if !s.ShearDeformation || as <= s.Section.Area {
+		var msg string
+		switch {
+		case !s.ShearDeformation && as > 0:
+			msg = fmt.Sprintf("Segment %d gives a %s but does not deform in shear, so it is not used: turn on shear deformation for the segment to add the shear deflection, or leave the shear properties out.", i+1, what)
+		case s.ShearDeformation && as > s.Section.Area:
+			msg = fmt.Sprintf("Segment %d deforms in shear with a %s, more than its cross-section area of %s m²: the area carrying the shear is a part of the section (κ = 5/6 for a solid rectangle, about the web's share for an I-section), so check its units; too large a one leaves out shear deflection.", i+1, what, units.FormatNumber(s.Section.Area))
+		default:
 			continue
 		}
-		f := finding(CodeMaterial, fmt.Sprintf("shear area of segment %d", i+1),
-			fmt.Sprintf("Segment %d deforms in shear with a %s, more than its cross-section area of %s m²: the area carrying the shear is a part of the section (κ = 5/6 for a solid rectangle, about the web's share for an I-section), so check its units; too large a one leaves out shear deflection.", i+1, what, units.FormatNumber(s.Section.Area)))
+		f := finding(CodeMaterial, fmt.Sprintf("shear area of segment %d", i+1), msg)
 		f.Span = [2]float64{s.Start, s.End}
 		out = append(out, f)
 	}
