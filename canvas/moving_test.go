@@ -17,6 +17,15 @@ func movingFixture(t *testing.T) MovingInput {
 	t.Helper()
 	seg := fem.Segment{End: 10, Section: fem.Section{Area: 5e-3, SecondMoment: 8e-5, FibreDistance: 0.15}, Material: fem.Material{Elastic: 2e11}}
 	m := &fem.Model{Segments: []fem.Segment{seg}, Supports: []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 5, Kind: fem.Roller}, {X: 10, Kind: fem.Roller}}, Mesh: fem.MeshSettings{Elements: 50}}
+	tr := &moving.Train{Name: "cart", Axles: []moving.Axle{{Load: 10e3}, {Load: 20e3, Spacing: 1}, {Load: 20e3, Spacing: 1}}, Step: 0.1}
+	return movingAtWorst(t, m, tr, moving.Target{Quantity: fem.QBendingMoment, X: 2.5})
+}
+
+// movingAtWorst is the picture's input for train tr on m, its envelope of
+// the bending moment and the influence line of target, with the train at
+// its worst position for the target's largest value.
+func movingAtWorst(t *testing.T, m *fem.Model, tr *moving.Train, target moving.Target) MovingInput {
+	t.Helper()
 	p, err := fem.Prepare(m)
 	if err != nil {
 		t.Fatal(err)
@@ -25,12 +34,10 @@ func movingFixture(t *testing.T) MovingInput {
 	if err != nil {
 		t.Fatal(err)
 	}
-	tr := &moving.Train{Name: "cart", Axles: []moving.Axle{{Load: 10e3}, {Load: 20e3, Spacing: 1}, {Load: 20e3, Spacing: 1}}, Step: 0.1}
 	env, err := in.Envelope(tr, p.Mesh(), nil)
 	if err != nil {
 		t.Fatal(err)
 	}
-	target := moving.Target{Quantity: fem.QBendingMoment, X: 2.5}
 	line, err := in.Line(target)
 	if err != nil {
 		t.Fatal(err)
@@ -106,32 +113,12 @@ func TestMovingPicture(t *testing.T) {
 func TestMovingPictureOffTheEnds(t *testing.T) {
 	seg := fem.Segment{End: 10, Section: fem.Section{Area: 5e-3, SecondMoment: 8e-5, FibreDistance: 0.15}, Material: fem.Material{Elastic: 2e11}}
 	m := &fem.Model{Segments: []fem.Segment{seg}, Supports: []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 10, Kind: fem.Roller}}, Mesh: fem.MeshSettings{Elements: 40}}
-	p, err := fem.Prepare(m)
-	if err != nil {
-		t.Fatal(err)
-	}
-	in, err := moving.New(p)
-	if err != nil {
-		t.Fatal(err)
-	}
 	tr := &moving.Train{Axles: []moving.Axle{{Load: 10e3}, {Load: 10e3, Spacing: 7}}, OffEnds: true, Direction: moving.Forward, Step: 0.05}
-	env, err := in.Envelope(tr, p.Mesh(), nil)
-	if err != nil {
-		t.Fatal(err)
+	in := movingAtWorst(t, m, tr, moving.Target{Quantity: fem.QBendingMoment, X: 5})
+	if in.At.Front != 5 {
+		t.Fatalf("worst position for the midspan moment: front at %g m, want 5 m (one axle at midspan, the other off)", in.At.Front)
 	}
-	target := moving.Target{Quantity: fem.QBendingMoment, X: 5}
-	line, err := in.Line(target)
-	if err != nil {
-		t.Fatal(err)
-	}
-	hi, lo, err := in.Worst(tr, p.Mesh(), target)
-	if err != nil {
-		t.Fatal(err)
-	}
-	if hi.Placement.Front != 5 {
-		t.Fatalf("worst position for the midspan moment: front at %g m, want 5 m (one axle at midspan, the other off)", hi.Placement.Front)
-	}
-	s, _ := BuildMoving(MovingInput{Model: m, Units: units.SI, Train: tr, At: hi.Placement, Envelope: env, Quantity: 3, Line: line, Worst: []moving.Extreme{hi, lo}}, 1200, 700)
+	s, _ := BuildMoving(in, 1200, 700)
 	v := NewView(1200, 700)
 	v.Fit(m)
 	for _, it := range s.Items {

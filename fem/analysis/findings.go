@@ -79,6 +79,13 @@ func finding(c Code, name, message string) Finding {
 	return Finding{Code: c, Severity: i.Severity, Status: i.Severity.String(), Name: name, Message: message, Doubtful: i.Unreliable}
 }
 
+// segmentFinding is a caution of code material about segment s, spanning it.
+func segmentFinding(s fem.Segment, name, message string) Finding {
+	f := finding(CodeMaterial, name, message)
+	f.Span = [2]float64{s.Start, s.End}
+	return f
+}
+
 // Findings lists what the user should look at: why the analysis failed,
 // materials far from typical values, solver warnings, a missing exact
 // solution, finite element extremes far from the exact ones, then the
@@ -98,9 +105,7 @@ func (a *Analysis) Findings() []Finding {
 		for _, msg := range material.FarFromTypical(s.Material) {
 			if !seen[msg] {
 				seen[msg] = true
-				f := finding(CodeMaterial, fmt.Sprintf("material of segment %d", i+1), msg)
-				f.Span = [2]float64{s.Start, s.End}
-				out = append(out, f)
+				out = append(out, segmentFinding(s, fmt.Sprintf("material of segment %d", i+1), msg))
 			}
 		}
 	}
@@ -163,10 +168,8 @@ func thermalFindings(m *fem.Model) []Finding {
 		if len(loads) == 0 {
 			continue
 		}
-		f := finding(CodeMaterial, fmt.Sprintf("thermal expansion of segment %d", i+1),
-			fmt.Sprintf("Segment %d has no coefficient of thermal expansion α, so %s does nothing to it: enter α (typical values: steel 12e-6 /K, concrete 10e-6 /K, aluminium 23.6e-6 /K), or remove the temperature load.", i+1, strings.Join(loads, " and ")))
-		f.Span = [2]float64{s.Start, s.End}
-		out = append(out, f)
+		out = append(out, segmentFinding(s, fmt.Sprintf("thermal expansion of segment %d", i+1),
+			fmt.Sprintf("Segment %d has no coefficient of thermal expansion α, so %s does nothing to it: enter α (typical values: steel 12e-6 /K, concrete 10e-6 /K, aluminium 23.6e-6 /K), or remove the temperature load.", i+1, strings.Join(loads, " and "))))
 	}
 	return out
 }
@@ -196,9 +199,7 @@ func shearAreaFindings(m *fem.Model) []Finding {
 		default:
 			continue
 		}
-		f := finding(CodeMaterial, fmt.Sprintf("shear area of segment %d", i+1), msg)
-		f.Span = [2]float64{s.Start, s.End}
-		out = append(out, f)
+		out = append(out, segmentFinding(s, fmt.Sprintf("shear area of segment %d", i+1), msg))
 	}
 	return out
 }
@@ -227,9 +228,7 @@ func depthFindings(m *fem.Model) []Finding {
 		default:
 			continue
 		}
-		f := finding(CodeMaterial, fmt.Sprintf("depth of segment %d", i+1), msg)
-		f.Span = [2]float64{s.Start, s.End}
-		out = append(out, f)
+		out = append(out, segmentFinding(s, fmt.Sprintf("depth of segment %d", i+1), msg))
 	}
 	return out
 }

@@ -272,9 +272,10 @@ func positions(free, step float64) int {
 }
 
 // DerivedStep is the step taken from the mesh for a train running from
-// from to to: the mean length of the elements there, but not so short that
-// the train takes more than derivedPositions positions.
-func DerivedStep(mesh fem.Mesh, from, to, trainLength float64) float64 {
+// from to to, whose front travels free metres: the mean length of the
+// elements there, but not so short that the train takes more than
+// derivedPositions positions.
+func DerivedStep(mesh fem.Mesh, from, to, free float64) float64 {
 	count := 0
 	for _, e := range mesh.Elements {
 		if mid := 0.5 * (e.Start + e.End); mid >= from && mid <= to {
@@ -282,7 +283,7 @@ func DerivedStep(mesh fem.Mesh, from, to, trainLength float64) float64 {
 		}
 	}
 	step := (to - from) / float64(max(count, 1))
-	return max(step, (to-from-trainLength)/derivedPositions)
+	return max(step, free/derivedPositions)
 }
 
 // Placement is one position of a train: the way it faces and the x of its
@@ -374,7 +375,7 @@ func (t *Train) runs(L float64, mesh fem.Mesh) ([]run, error) {
 	free := max(hi-lo, 0)
 	step := t.Step
 	if step == 0 {
-		step = DerivedStep(mesh, from, to, to-from-free)
+		step = DerivedStep(mesh, from, to, free)
 	}
 	n := positions(free, step)
 	if n > 1 {
