@@ -61,6 +61,7 @@ func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
 	if err != nil {
 		return nil, err
 	}
+	r.Target = line.Target // read on the member at its ends
 	out := &MovingLoads{Member: member, Mesh: member.Mesh(), Line: line}
 	out.Smallest, out.Largest = line.Extremes()
 	n := r.Points

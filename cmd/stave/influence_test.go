@@ -291,19 +291,21 @@ func TestInfluenceCommandPictureAndSheet(t *testing.T) {
 // memory). With the load at x itself the cut just right of x has it on its
 // left and the cut just left of x on its right: the exact sample there is
 // the same load as the finite element one, on the node at x (at a support
-// the load goes straight into it: 0).
+// the load goes straight into it: 0). At an end the side off the member is
+// read on the member: nothing lies left of x = 0 or right of x = L.
 func TestInfluenceCommandShearAtItsOwnPoint(t *testing.T) {
 	const L = 4.0
 	for _, c := range []struct {
-		at, side string
-		x        float64
+		at, side, read string
+		x              float64
 	}{
-		{"1", "right", 1}, {"1", "left", 1}, {"0", "right", 0}, {"4", "left", L},
+		{"1", "right", "right", 1}, {"1", "left", "left", 1}, {"0", "right", "right", 0}, {"4", "left", "left", L},
+		{"0", "left", "right", 0}, {"4", "right", "left", L},
 	} {
 		t.Run(c.at+" "+c.side, func(t *testing.T) {
 			got := influenceRun(t, "../../testdata/simply_supported_uniform.json", "--quantity", "V", "--at", c.at, "--side", c.side, "--points", "8")
 			for _, s := range got.Line.Samples {
-				loadsLeft := s.S < c.x || (s.S == c.x && c.side == "right")
+				loadsLeft := s.S < c.x || (s.S == c.x && c.read == "right")
 				want := 1 - s.S/L
 				if loadsLeft {
 					want = -s.S / L

@@ -753,6 +753,7 @@ func (in *Influence) Worst(t *Train, mesh fem.Mesh, tg Target) (hi, lo Extreme, 
 	if !tg.Bending() {
 		return hi, lo, errors.New("a train loads the member across: ask for a bending quantity or a transverse or rotation reaction")
 	}
+	tg = tg.inner(in.model.Length())
 	s, err := in.sweepsFor(tg)
 	if err != nil {
 		return hi, lo, err

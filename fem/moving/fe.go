@@ -22,6 +22,7 @@ func FELine(p *fem.Member, mesh fem.Mesh, t Target, positions []float64) (values
 		return nil, nil, err
 	}
 	unit := Unloaded(p.Model())
+	t = t.inner(unit.Length())
 	keys := st.KeyPoints()
 	values, at = make([]float64, len(positions)), make([]float64, len(positions))
 	for i, s := range positions {

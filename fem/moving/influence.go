@@ -39,6 +39,23 @@ func (t Target) String() string {
 	return fmt.Sprintf("%s at x = %s m%s", t.Quantity, trim(t.X), side)
 }
 
+// inner is t read on the member: at either end only one side of the point
+// lies on it (the right of x = 0, the left of x = L), and that is the side
+// read whatever side t names. Read from outside, the shear force at an end
+// would be zero for every load but one standing on the end itself.
+func (t Target) inner(length float64) Target {
+	if t.Reaction {
+		return t
+	}
+	switch {
+	case t.X <= keyTolerance*length:
+		t.Side = fem.Right
+	case t.X >= length-keyTolerance*length:
+		t.Side = fem.Left
+	}
+	return t
+}
+
 // Bending reports whether t is a bending quantity, for a unit force down;
 // otherwise it is axial, for a unit force along +x.
 func (t Target) Bending() bool {
@@ -141,6 +158,7 @@ type Line struct {
 
 // Line returns the influence line of t.
 func (in *Influence) Line(t Target) (*Line, error) {
+	t = t.inner(in.model.Length())
 	s, err := in.sweepsFor(t)
 	if err != nil {
 		return nil, err
