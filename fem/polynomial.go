@@ -513,3 +513,11 @@ const extremeTie = 1e-12
 func Beyond(a, b float64) bool {
 	return a > b && !(a-b <= extremeTie*math.Min(math.Abs(a), math.Abs(b)))
 }
+
+// BeyondField is Beyond where a and b are values of one field whose
+// largest magnitude is scale: a must also exceed b by more than extremeTie
+// of scale, so that round-off about zero (a deflection of 1e-18 m beside a
+// support's 0) does not name a place of its own.
+func BeyondField(a, b, scale float64) bool {
+	return Beyond(a, b) && a-b > extremeTie*scale
+}

@@ -159,10 +159,10 @@ func (s *Summary) Worst() (Extreme, bool) {
 type extremes struct {
 	lo, hi [quantityCount]Point
 	seen   bool
-	// tie is, per quantity, a difference within which a later value ties
-	// with the extreme so far, beside Beyond's relative one: round-off
-	// against the field's size (exactExtremes); zero in a walk.
-	tie [quantityCount]float64
+	// scale is, per quantity, the field's size against which a later value
+	// ties with the extreme so far (BeyondField), beside Beyond's relative
+	// tie (exactExtremes); zero in a walk.
+	scale [quantityCount]float64
 }
 
 func newExtremes() *extremes {
@@ -223,10 +223,10 @@ func (x *extremes) insideBeyond(q Quantity, fe *Interval, a, b float64) bool {
 // take keeps lo and hi where they are beyond the extremes of q so far by
 // more than a tie (Beyond): of equal peaks the first along the member.
 func (x *extremes) take(q Quantity, lo, hi Point) {
-	if Beyond(x.lo[q].Value, lo.Value) && x.lo[q].Value-lo.Value > x.tie[q] {
+	if BeyondField(x.lo[q].Value, lo.Value, x.scale[q]) {
 		x.lo[q] = lo
 	}
-	if Beyond(hi.Value, x.hi[q].Value) && hi.Value-x.hi[q].Value > x.tie[q] {
+	if BeyondField(hi.Value, x.hi[q].Value, x.scale[q]) {
 		x.hi[q] = hi
 	}
 }
@@ -264,9 +264,9 @@ func (x *extremes) list() []Extreme {
 // element walk names it.
 func exactExtremes(e *Exact) *extremes {
 	var v Interval
-	pass := func(tie *[quantityCount]float64) *extremes {
+	pass := func(scale *[quantityCount]float64) *extremes {
 		x := newExtremes()
-		x.tie = *tie
+		x.scale = *scale
 		for j := range e.stretches {
 			st := &e.stretches[j]
 			st.interval(0, 1, st.start, st.end, &v)
@@ -278,12 +278,12 @@ func exactExtremes(e *Exact) *extremes {
 		}
 		return x
 	}
-	var tie [quantityCount]float64
-	first := pass(&tie)
-	for q := range tie {
-		tie[q] = extremeTie * max(math.Abs(first.lo[q].Value), math.Abs(first.hi[q].Value))
+	var scale [quantityCount]float64
+	first := pass(&scale)
+	for q := range scale {
+		scale[q] = max(math.Abs(first.lo[q].Value), math.Abs(first.hi[q].Value))
 	}
-	return pass(&tie)
+	return pass(&scale)
 }
 
 // withExact makes the exact extremes ex the headline values of list and

@@ -458,17 +458,35 @@ func (e *Envelope) Worst(q fem.Quantity) (hi, lo Extreme) {
 	if k < 0 {
 		return Extreme{}, Extreme{}
 	}
-	best, least := 0, 0
-	for s := range e.Stations {
-		if fem.Beyond(e.Max[k][s], e.Max[k][best]) {
-			best = s
-		}
-		if fem.Beyond(e.Min[k][least], e.Min[k][s]) {
-			least = s
-		}
-	}
+	best, least := e.worstStation(k, true), e.worstStation(k, false)
 	return Extreme{e.Max[k][best], e.Stations[best], e.Placement(e.MaxAt[k][best])},
 		Extreme{e.Min[k][least], e.Stations[least], e.Placement(e.MinAt[k][least])}
+}
+
+// scale is the largest magnitude of quantity k (an index into
+// EnvelopeQuantities) anywhere in e.
+func (e *Envelope) scale(k int) float64 {
+	s := 0.0
+	for i := range e.Stations {
+		s = max(s, math.Abs(e.Max[k][i]), math.Abs(e.Min[k][i]))
+	}
+	return s
+}
+
+// worstStation is the station of the largest (upper) or smallest value of
+// quantity k: the first along the member of values that tie to round-off
+// against the field's size (fem.BeyondField), so that a deflection of
+// 1e-18 m beside a support's 0 does not name a place of its own.
+func (e *Envelope) worstStation(k int, upper bool) int {
+	scale := e.scale(k)
+	b := 0
+	for i := range e.Stations {
+		if upper && fem.BeyondField(e.Max[k][i], e.Max[k][b], scale) ||
+			!upper && fem.BeyondField(e.Min[k][b], e.Min[k][i], scale) {
+			b = i
+		}
+	}
+	return b
 }
 
 // minStations is the number of intervals below which the default stations
@@ -605,12 +623,7 @@ func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (
 	if !upper {
 		sign, values, at = -1, e.Min[q], e.MinAt[q]
 	}
-	b := 0
-	for i := range values {
-		if sign*values[i] > sign*values[b] {
-			b = i
-		}
-	}
+	b, scale := e.worstStation(q, upper), e.scale(q)
 	lo, hi := e.Stations[max(b-1, 0)]+tol, e.Stations[min(b+1, n-1)]-tol
 	x, pos, v := e.Stations[b], at[b], values[b]
 	for c := range maxClimb {
@@ -634,7 +647,7 @@ func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (
 		}
 		best := -1
 		for i := range cands {
-			if sign*pv[i] > sign*v && (best < 0 || sign*pv[i] > sign*pv[best]) {
+			if fem.BeyondField(sign*pv[i], sign*v, scale) && (best < 0 || sign*pv[i] > sign*pv[best]) {
 				best = i
 			}
 		}

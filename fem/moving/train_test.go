@@ -490,3 +490,37 @@ func TestTrainDrivingOnAndOff(t *testing.T) {
 		t.Errorf("a 12 m train kept on a 10 m span: %v, want it refused as not fitting", err)
 	}
 }
+
+// A train that drives off a simple span leaves it unloaded at its last
+// positions, where the deflection and the moment are zero everywhere but
+// for round-off (2.7e-15 m against 0.104 m). The largest deflection and the
+// smallest moment over every position are then 0 (a support's deflection,
+// an end's moment: statics), at x = 0 with the first position, not at a
+// place and a position that round-off chose.
+func TestTrainWorstZeroIsNotRoundOff(t *testing.T) {
+	const L, P = 10.0, 100e3
+	m := beam(L, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: L, Kind: fem.Roller})
+	in := influence(t, m)
+	p, _ := fem.Prepare(m)
+	tr := &Train{Axles: []Axle{{Load: P}, {Load: P, Spacing: 7}}, OffEnds: true, Step: 0.1}
+	e, err := in.Envelope(tr, p.Mesh(), nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	first := e.Placement(0)
+	hi, _ := e.Worst(fem.QDeflection)
+	_, lo := e.Worst(fem.QBendingMoment)
+	for _, c := range []struct {
+		name string
+		got  Extreme
+	}{{"largest deflection", hi}, {"smallest bending moment", lo}} {
+		if math.Abs(c.got.Value) > 1e-12 || c.got.X != 0 || c.got.Placement != first {
+			t.Errorf("%s: %g at x = %g with the front at %g %v, want 0 at x = 0 with the first position (front at %g %v)",
+				c.name, c.got.Value, c.got.X, c.got.Placement.Front, c.got.Placement.Direction, first.Front, first.Direction)
+		}
+	}
+	// The climb off the stations keeps it there too.
+	if ex, moved := e.Peak(slices.Index(EnvelopeQuantities, fem.QBendingMoment), false, func([]float64) *Envelope { return nil }); moved || ex.X != 0 {
+		t.Errorf("Peak of the smallest moment: %g at x = %g (moved %v), want 0 at x = 0", ex.Value, ex.X, moved)
+	}
+}
