@@ -35,7 +35,7 @@ type Status int
 const (
 	OK      Status = iota // solved, no check failed, nothing to look at
 	Caution               // solved, no check failed, but a finding asks for a look
-	Failed                // solved, and at least one check failed
+	Failed                // solved, but a check failed or the results are unreliable (analysis.Failed)
 	Refused               // the file could not be loaded, or its model not solved
 )
 
@@ -53,18 +53,18 @@ func (s Status) String() string {
 func (s Status) MarshalText() ([]byte, error) { return []byte(s.String()), nil }
 
 // StatusOf grades the findings of a solved model: Failed when any is a
-// failure, Caution when any asks for caution, OK otherwise.
+// failure or marks the results as unreliable (analysis.Failed: `stave
+// solve` then exits 3), Caution when any asks for caution, OK otherwise.
 func StatusOf(fs []analysis.Finding) Status {
-	s := OK
+	if analysis.Failed(fs) {
+		return Failed
+	}
 	for _, f := range fs {
-		switch f.Severity {
-		case analysis.Fail:
-			return Failed
-		case analysis.Caution:
-			s = Caution
+		if f.Severity == analysis.Caution {
+			return Caution
 		}
 	}
-	return s
+	return OK
 }
 
 // Load reads one member's project from its name in the batch.
@@ -188,7 +188,7 @@ func checkOne(ctx context.Context, name string, load Load) (m Member) {
 	if err != nil {
 		return refused(name, p.Notes.Member, err)
 	}
-	return Line(name, p.Notes.Member, &a)
+	return Line(name, p, &a)
 }
 
 // refused is the line of a member that could not be checked, the reason
