@@ -300,3 +300,39 @@ func TestProgressBar(t *testing.T) {
 		t.Errorf("a batch shorter than a second drew %q", out.String())
 	}
 }
+
+// --units names the places of the checks in the text as solve --units
+// does; the JSON's lengths stay in metres. 4 m is 13.12 ft (1 ft = 0.3048 m
+// exactly, NIST SP 811, appendix B); the deflection 5qL⁴/(384EI) =
+// 20.83 mm of the simply supported beam (Gere & Goodno, beam deflection
+// tables, from memory) does not depend on the units shown.
+func TestCheckUnits(t *testing.T) {
+	ss := "../../testdata/simply_supported_uniform.json"
+	us := edited(t, ss, "shown_in_us.json", func(doc map[string]any) { doc["view"].(map[string]any)["units"] = "US" })
+	for _, c := range []struct {
+		name  string
+		args  []string
+		place string
+	}{
+		{"the file's units by default", []string{ss}, "Deflection, span 0 m to 4.000 m"},
+		{"the file's US units by default", []string{us}, "Deflection, span 0 ft to 13.12 ft"},
+		{"US asked for", []string{"--units", "US", ss}, "Deflection, span 0 ft to 13.12 ft"},
+		{"SI asked for a file shown in US", []string{us, "--units", "SI"}, "Deflection, span 0 m to 4.000 m"},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			code, out, stderr := runStave(t, append([]string{"check"}, c.args...)...)
+			if code != 3 || !strings.Contains(out, c.place) {
+				t.Errorf("exit %d (want 3, the deflection fails), no %q in:\n%s%s", code, c.place, out, stderr)
+			}
+			_, lines := checkJSON(t, c.args...)
+			const q, L, E, I = 10e3, 4.0, 200e9, 8e-6
+			want := 5 * q * L * L * L * L / (384 * E * I)
+			if d := lines[0].Deflection; d == nil || math.Abs(d.Deflection-want) > 1e-9*want || d.Span != L {
+				t.Errorf("JSON deflection %+v, want %g m over %g m", d, want, L)
+			}
+		})
+	}
+	if code, _, stderr := runStave(t, "check", "--units", "imperial", ss); code != 2 || !strings.Contains(stderr, "unknown unit system") {
+		t.Errorf("--units imperial: exit %d, stderr %q; want 2, naming the unknown system", code, stderr)
+	}
+}

@@ -734,7 +734,7 @@ func TestCommandHelp(t *testing.T) {
 		{"export", []string{"-out", "-sheet", "-points", "-units"}},
 		{"converge", []string{"-json", "-max", "-target"}},
 		{"influence", []string{"-quantity", "-at", "-envelope", "-units"}},
-		{"check", []string{"usage: stave check [flags] FILE... | DIR", "-json", "-csv", "-workers"}},
+		{"check", []string{"usage: stave check [flags] FILE... | DIR", "-json", "-csv", "-workers", "-units"}},
 		{"bench", []string{"usage: stave bench [flags]\n", "-json", "-quick"}},
 	} {
 		code, out, stderr := runStave(t, c.command, "--help")

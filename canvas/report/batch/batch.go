@@ -25,6 +25,7 @@ import (
 
 	"stave/canvas/report"
 	"stave/fem/analysis"
+	"stave/fem/units"
 	"stave/storage"
 )
 
@@ -77,6 +78,9 @@ type Options struct {
 	Workers int
 	// Load reads a member; nil reads the named file (storage.Load).
 	Load Load
+	// Units are the units the checks name their places and values in; the
+	// zero value takes each file's display units, as `stave solve` does.
+	Units units.System
 }
 
 // linesPerWorker is how far a finished line may run ahead of the first
@@ -131,7 +135,7 @@ func Run(ctx context.Context, names []string, opts Options, emit func(Member) er
 		go func() {
 			defer wg.Done()
 			for i := range jobs {
-				results <- done{i, checkOne(ctx, names[i], load)}
+				results <- done{i, checkOne(ctx, names[i], load, opts.Units)}
 			}
 		}()
 	}
@@ -172,9 +176,10 @@ func Run(ctx context.Context, names []string, opts Options, emit func(Member) er
 	return sum, stop
 }
 
-// checkOne loads and analyses one member and makes its line. A model that
-// makes Stave fail is reported in its line, so the batch goes on.
-func checkOne(ctx context.Context, name string, load Load) (m Member) {
+// checkOne loads and analyses one member and makes its line, its checks
+// in units sys (the file's display units when sys is the zero value). A
+// model that makes Stave fail is reported in its line, so the batch goes on.
+func checkOne(ctx context.Context, name string, load Load, sys units.System) (m Member) {
 	defer func() {
 		if r := recover(); r != nil {
 			m = refused(name, "", fmt.Errorf("Stave failed on this model (an internal error, please report it with the file): %v", r))
@@ -184,7 +189,11 @@ func checkOne(ctx context.Context, name string, load Load) (m Member) {
 	if err != nil {
 		return refused(name, "", err)
 	}
-	a, err := analysis.Run(ctx, report.Request(p, nil))
+	r := report.Request(p, nil)
+	if sys.Name != "" {
+		r.Checks.Units = sys
+	}
+	a, err := analysis.Run(ctx, r)
 	if err != nil {
 		return refused(name, p.Notes.Member, err)
 	}
