@@ -216,6 +216,22 @@ func Export(ctx context.Context, w io.Writer, p *storage.Project, product string
 	return src, Write(w, src, product, opts)
 }
 
+// shownLine says whose solution the results of a model with cases are (a
+// table holds one: the first combination's for the envelope); "" for a
+// model without cases.
+func shownLine(a *analysis.Analysis) string {
+	if a == nil || a.Cases == nil {
+		return ""
+	}
+	m := &a.Model
+	shown := a.Cases.Show.Title(m)
+	if a.Cases.Show.Kind != analysis.ShowEnvelope {
+		return fmt.Sprintf("Shown: %s; the table and the results below are those of %s.", shown, shown)
+	}
+	return fmt.Sprintf("Shown: %s; the table and the results below are those of %s, the first (the checks take every combination): choose a case or combination to tabulate another.",
+		shown, analysis.Show{Kind: analysis.ShowCombination}.Title(m))
+}
+
 // Input is the drawing of src: the one place where results become a
 // canvas.Input, for the window and for every export.
 func Input(src Source) canvas.Input {
@@ -301,6 +317,9 @@ func Write(w io.Writer, src Source, product string, opts Options) error {
 			points = canvas.DefaultCSVPoints(len(in.Solution.Mesh.Elements))
 		}
 		var results strings.Builder
+		if line := shownLine(src.Analysis); line != "" {
+			fmt.Fprintln(&results, line)
+		}
 		WriteResultsText(&results, src)
 		return canvas.WriteCSV(w, in.Solution, in.Exact, src.Units, points, strings.Split(strings.TrimRight(results.String(), "\n"), "\n"))
 	}
