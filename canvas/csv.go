@@ -99,7 +99,11 @@ func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perEle
 		out.WriteString("# Ground: the force per unit length the foundations exert on the member, up and along +x positive.\n")
 	}
 	out.WriteString(csvUnitsLine(u, qs, ground) + "\n")
-	fmt.Fprintf(out, "# Each element at %d evenly spaced points (%d intervals), both ends included.\n", perElement+1, perElement)
+	if perElement == 1 {
+		out.WriteString("# Each element at its 2 ends (1 interval).\n")
+	} else {
+		fmt.Fprintf(out, "# Each element at %d evenly spaced points (%d intervals), both ends included.\n", perElement+1, perElement)
+	}
 	for _, line := range notes {
 		out.WriteString(strings.TrimRight("# "+line, " ") + "\n")
 	}

@@ -35,7 +35,7 @@ func TestEnvelopeDrawsBothCurvesAndNamesTheCombination(t *testing.T) {
 		t.Fatal(err)
 	}
 	sol, _ := cs.Solution(0)
-	in := Input{Model: m, Solution: sol, Overlays: storage.Overlays{BendingMoment: true},
+	in := Input{Model: m, Solution: sol, Overlays: storage.Overlays{BendingMoment: true, DeformedShape: true},
 		Envelope: &Envelope{Solutions: cs, Result: cs.Envelope(), Names: []string{"both", "first"}}}
 	v := NewView(1000, 600)
 	v.Fit(m)
@@ -58,5 +58,14 @@ func TestEnvelopeDrawsBothCurvesAndNamesTheCombination(t *testing.T) {
 	}
 	if curves != 2 {
 		t.Errorf("%d curves drawn in the strip, want the upper and the lower", curves)
+	}
+	// The sketch above the strips shows one solution, the first
+	// combination's: its reactions are both spans' (end reaction 3qL/8 =
+	// 15 kN, middle 10qL/8 = 50 kN; continuous beam tables, AISC Manual
+	// "Beam Diagrams and Formulas", from memory), and it says whose.
+	for _, want := range []string{"deformed shape and reactions of combination both", "Ry 15.00 kN", "Ry 50.00 kN"} {
+		if !strings.Contains(all, want) {
+			t.Errorf("no label with %q among %s", want, all)
+		}
 	}
 }

@@ -32,6 +32,9 @@ type SheetInput struct {
 	// Cases are the load cases, combinations with their factors and the
 	// envelope's governing values of a model with cases, one line each.
 	Cases []string
+	// Trains are the moving load trains the sheet's results leave out, one
+	// line each.
+	Trains []string
 }
 
 // A4 portrait in points; the sheet is laid out as a scene of this size.
@@ -141,6 +144,7 @@ func buildSheet(in SheetInput) *Scene {
 	}
 	sh.list("Load cases, combinations and envelope", in.Cases, inkColour)
 	sh.list("Warnings", in.Checks, problemColour)
+	sh.list("Moving load trains, left out of these results and checks (stave solve and stave influence give them)", in.Trains, inkColour)
 	// The caution sits at the foot of the page whatever the content above.
 	foot := float32(a4Height - sheetEdge - 2*TextHeight(sheetText))
 	b.line(inkColour, 0.75, Point{sheetEdge, foot - 4}, Point{right, foot - 4})
@@ -179,7 +183,7 @@ func (sh *sheet) reserve(in SheetInput) float32 {
 	} else {
 		h += 3*line + 25
 	}
-	for _, list := range [][]string{in.Checks, in.Cases} {
+	for _, list := range [][]string{in.Checks, in.Cases, in.Trains} {
 		if len(list) > 0 {
 			h += 25
 			for _, c := range list {

@@ -173,3 +173,21 @@ func TestSheetShowsDepthAndShearInputs(t *testing.T) {
 		t.Errorf("the sheet should say %q:\n%s", want, all)
 	}
 }
+
+// The sheet lists the moving load trains its results leave out, under a
+// heading that says so.
+func TestSheetListsTheTrainsLeftOut(t *testing.T) {
+	in := SheetInput{Input: solved(t, modelledModel()), Notes: SheetNotes{Version: "test"}, Trains: []string{`train "cart": 10.00 kN`}}
+	var lines []string
+	for _, it := range buildSheet(in).Items {
+		if it.Kind == Text {
+			lines = append(lines, it.Text)
+		}
+	}
+	all := strings.Join(lines, "\n")
+	for _, want := range []string{"Moving load trains, left out of these results and checks", `• train "cart": 10.00 kN`} {
+		if !strings.Contains(all, want) {
+			t.Errorf("the sheet lacks %q:\n%s", want, all)
+		}
+	}
+}

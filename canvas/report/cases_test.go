@@ -5,6 +5,7 @@ import (
 	"context"
 	"math"
 	"slices"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -165,4 +166,54 @@ func casesResults(t *testing.T, p *storage.Project) *CasesJSON {
 		t.Fatal(err)
 	}
 	return r
+}
+
+// The results table of a model with cases names the case or combination
+// its rows hold: the table holds one solution, the first combination's
+// for the envelope. Two equal spans L = 4 m under q = 10 kN/m: both spans
+// loaded, the end reaction is 3qL/8 = 15 kN; the first span alone,
+// 7qL/16 = 17.5 kN (continuous beam tables, AISC Manual "Beam Diagrams and
+// Formulas", cases 29 and 30, from memory).
+func TestCSVNamesWhatItTabulates(t *testing.T) {
+	const q, L = 10.0, 4.0 // kN/m, m
+	for _, c := range []struct {
+		show, says string
+		r1         float64 // kN, the end reaction at x = 0
+	}{
+		{"", "Shown: envelope of 3 combinations; the table and the results below are those of combination both", 3 * q * L / 8},
+		{"first", "Shown: combination first; the table and the results below are those of combination first", 7 * q * L / 16},
+		{"first span", "Shown: load case first span; the table and the results below are those of load case first span", 7 * q * L / 16},
+	} {
+		t.Run(c.show, func(t *testing.T) {
+			p, err := storage.Load("../../testdata/two_span_cases.json")
+			if err != nil {
+				t.Fatal(err)
+			}
+			var opts Options
+			if c.show != "" {
+				var ok bool
+				if opts.Show, ok = analysis.ShowNamed(&p.Model, c.show); !ok {
+					t.Fatalf("no case or combination %q", c.show)
+				}
+			}
+			var out bytes.Buffer
+			if _, err := Export(context.Background(), &out, p, "csv", opts); err != nil {
+				t.Fatal(err)
+			}
+			text := out.String()
+			if !strings.Contains(text, "\n# "+c.says) {
+				t.Errorf("the table does not say %q:\n%s", c.says, text[:min(len(text), 1500)])
+			}
+			// The shear force just right of x = 0 is the end reaction.
+			rows := strings.Split(text, "\n")
+			for i, row := range rows {
+				if strings.HasPrefix(row, "x [m],") {
+					cells := strings.Split(rows[i+1], ",")
+					if v, err := strconv.ParseFloat(cells[10], 64); err != nil || !near(v, c.r1, 1e-9) {
+						t.Errorf("V exact at x = 0 is %s kN, want %g", cells[10], c.r1)
+					}
+				}
+			}
+		})
+	}
 }

@@ -216,6 +216,40 @@ func Export(ctx context.Context, w io.Writer, p *storage.Project, product string
 	return src, Write(w, src, product, opts)
 }
 
+// shownLine says whose solution the results of a model with cases are (a
+// table holds one: the first combination's for the envelope); "" for a
+// model without cases.
+func shownLine(a *analysis.Analysis) string {
+	if a == nil || a.Cases == nil {
+		return ""
+	}
+	m := &a.Model
+	shown := a.Cases.Show.Title(m)
+	if a.Cases.Show.Kind != analysis.ShowEnvelope {
+		return fmt.Sprintf("Shown: %s; the table and the results below are those of %s.", shown, shown)
+	}
+	return fmt.Sprintf("Shown: %s; the table and the results below are those of %s, the first (the checks take every combination): choose a case or combination to tabulate another.",
+		shown, analysis.Show{Kind: analysis.ShowCombination}.Title(m))
+}
+
+// TrainsLeftOut heads the moving load trains that a results table or a
+// calculation sheet leaves out: they hold the member's own loads alone.
+const TrainsLeftOut = "Moving load trains of the file, left out of these results and checks (stave solve and stave influence give each train's worst positions and envelope):"
+
+// trainLines describe the moving load trains of src's project, one line
+// each; nil when it has none.
+func trainLines(src Source) []string {
+	p := src.Project
+	if p == nil || len(p.Trains) == 0 {
+		return nil
+	}
+	out := make([]string, len(p.Trains))
+	for i := range p.Trains {
+		out[i] = describeTrain(&p.Trains[i], p.Trains[i].Label(i), p.Model.Length(), src.Units)
+	}
+	return out
+}
+
 // Input is the drawing of src: the one place where results become a
 // canvas.Input, for the window and for every export.
 func Input(src Source) canvas.Input {
@@ -285,6 +319,7 @@ func Write(w io.Writer, src Source, product string, opts Options) error {
 			Notes:  canvas.SheetNotes{Project: n.Project, Mark: n.Member, Engineer: n.Engineer, Date: n.Date, Version: Version},
 			Checks: warningSentences(src.Findings),
 			Cases:  sheetCaseLines(src),
+			Trains: trainLines(src),
 		}
 		if a := src.Analysis; a != nil && a.Solution != nil {
 			sheet.Mesh = analysis.MeshChoice(a.Summary())
@@ -301,6 +336,15 @@ func Write(w io.Writer, src Source, product string, opts Options) error {
 			points = canvas.DefaultCSVPoints(len(in.Solution.Mesh.Elements))
 		}
 		var results strings.Builder
+		if line := shownLine(src.Analysis); line != "" {
+			fmt.Fprintln(&results, line)
+		}
+		if trains := trainLines(src); trains != nil {
+			fmt.Fprintln(&results, TrainsLeftOut)
+			for _, l := range trains {
+				fmt.Fprintln(&results, "  "+l)
+			}
+		}
 		WriteResultsText(&results, src)
 		return canvas.WriteCSV(w, in.Solution, in.Exact, src.Units, points, strings.Split(strings.TrimRight(results.String(), "\n"), "\n"))
 	}

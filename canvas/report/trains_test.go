@@ -1,6 +1,7 @@
 package report
 
 import (
+	"bytes"
 	"context"
 	"math"
 	"strings"
@@ -348,4 +349,40 @@ func movingMoment(t *testing.T, model string, x float64) (*storage.Project, *Mov
 		t.Fatal(err)
 	}
 	return p, r
+}
+
+// The results table and the calculation sheet hold the member's own loads
+// alone, so they name the moving load trains they leave out: the runway's
+// two trains, with their axles (42 kN, 3.2 m apart, as the file gives).
+func TestTableAndSheetNameTheTrainsLeftOut(t *testing.T) {
+	p, err := storage.Load("../../testdata/moving/runway.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	var out bytes.Buffer
+	src, err := Export(context.Background(), &out, p, "csv", Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	lines := trainLines(src)
+	if len(lines) != 2 || !strings.HasPrefix(lines[0], `train "end carriage": 42.00 kN –3.200 m– 42.00 kN`) || !strings.Contains(lines[1], `"maintenance cart"`) {
+		t.Errorf("train lines %q: want the two trains of the file", lines)
+	}
+	table := out.String()
+	wants := []string{"\n# " + TrainsLeftOut + "\n"}
+	for _, l := range lines {
+		wants = append(wants, "\n#   "+l+"\n")
+	}
+	for _, want := range wants {
+		if !strings.Contains(table, want) {
+			t.Errorf("the table lacks %q", want)
+		}
+	}
+	demo, err := storage.Demo()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if src, err := Analyse(context.Background(), demo); err != nil || trainLines(src) != nil {
+		t.Errorf("the demo, without trains: lines %q, error %v", trainLines(src), err)
+	}
 }

@@ -31,7 +31,12 @@ func checkCommand(args []string, stdout, stderr io.Writer) error {
 	asJSON := fs.Bool("json", false, "print the lines and the summary as JSON")
 	asCSV := fs.Bool("csv", false, "print the lines as CSV")
 	workers := fs.Int("workers", 0, "members analysed at once (default: one per core)")
+	system := fs.String("units", "", "unit system the text names the checks' places in: SI or US (default: each file's display units; JSON and CSV lengths stay in m)")
 	names, err := parseFiles(fs, args, stdout)
+	if err != nil {
+		return err
+	}
+	sys, err := unitsFlag(*system)
 	if err != nil {
 		return err
 	}
@@ -70,7 +75,7 @@ func checkCommand(args []string, stdout, stderr io.Writer) error {
 		debug.SetGCPercent(400)
 	}
 	done := 0
-	sum, err := batch.Run(context.Background(), paths, batch.Options{Workers: *workers}, func(m batch.Member) error {
+	sum, err := batch.Run(context.Background(), paths, batch.Options{Workers: *workers, Units: sys}, func(m batch.Member) error {
 		done++
 		bar.show(done)
 		return w.Member(m)

@@ -7,6 +7,7 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
+	"slices"
 	"strings"
 	"testing"
 	"time"
@@ -17,10 +18,14 @@ import (
 
 // checkLine is what the tests read of a line of check --json.
 type checkLine struct {
-	File       string `json:"file"`
-	Member     string `json:"member"`
-	Status     string `json:"status"`
-	Problem    string `json:"problem"`
+	File     string `json:"file"`
+	Member   string `json:"member"`
+	Status   string `json:"status"`
+	Problem  string `json:"problem"`
+	Warnings []struct {
+		Severity string `json:"severity"`
+		Check    string `json:"check"`
+	} `json:"warnings"`
 	Deflection *struct {
 		Deflection float64 `json:"deflection_m"`
 		Span       float64 `json:"span_m"`
@@ -59,9 +64,59 @@ func mechanism(t *testing.T) string {
 	return path
 }
 
+// edited writes the model of file changed by edit, as JSON, and returns its path.
+func edited(t *testing.T, file, name string, edit func(doc map[string]any)) string {
+	t.Helper()
+	data, err := os.ReadFile(file)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var doc map[string]any
+	if err := json.Unmarshal(data, &doc); err != nil {
+		t.Fatal(err)
+	}
+	edit(doc)
+	if data, err = json.Marshal(doc); err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(t.TempDir(), name)
+	if err := os.WriteFile(path, data, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	return path
+}
+
+// illConditioned is a simply supported beam whose right half is 10¹² times
+// stiffer than its left: the solver's equations are ill-conditioned, so
+// solve marks the results unreliable, though no check fails (the
+// deflection limit is span/100).
+func illConditioned(t *testing.T) string {
+	return edited(t, "../../testdata/simply_supported_uniform.json", "ill_conditioned.json", func(doc map[string]any) {
+		seg := func(start, end, e float64) map[string]any {
+			return map[string]any{"start": start, "end": end,
+				"section":  map[string]any{"area": 0.004, "second_moment": 8e-6, "fibre_distance": 0.1},
+				"material": map[string]any{"elastic_modulus": e}}
+		}
+		doc["member"] = map[string]any{"segments": []any{seg(0, 2, 2e11), seg(2, 4, 2e23)}}
+		delete(doc, "mesh")
+		doc["view"].(map[string]any)["deflection_limit"] = 100
+	})
+}
+
+// longTrain is the demo model with a train of two axles 8 m apart, which
+// does not fit on its 5.5 m: solve leaves the train out with a caution.
+func longTrain(t *testing.T) string {
+	return edited(t, "../../testdata/demo.json", "long_train.json", func(doc map[string]any) {
+		doc["trains"] = []any{map[string]any{"name": "long cart",
+			"axles": []any{map[string]any{"load": 1000}, map[string]any{"load": 1000, "spacing": 8}}}}
+	})
+}
+
 // Member by member, check says what solve says of the same file: refused
-// exactly when solve refuses it, with solve's reason; otherwise the largest
-// deflection of a member spanning end to end is solve's largest deflection.
+// exactly when solve refuses it, with solve's reason; failed exactly when
+// solve exits 3 (a failed check, or results marked unreliable), with the
+// same failed and cautioned warnings; otherwise the largest deflection of
+// a member spanning end to end is solve's largest deflection.
 func TestCheckAgreesWithSolve(t *testing.T) {
 	notJSON := filepath.Join(t.TempDir(), "not_json.json")
 	if err := os.WriteFile(notJSON, []byte("{"), 0o644); err != nil {
@@ -71,7 +126,7 @@ func TestCheckAgreesWithSolve(t *testing.T) {
 	if err != nil || len(files) < 8 {
 		t.Fatalf("testdata: %d files, %v", len(files), err)
 	}
-	files = append(files, notJSON, mechanism(t), "missing.json")
+	files = append(files, notJSON, mechanism(t), "missing.json", illConditioned(t), longTrain(t))
 	_, lines := checkJSON(t, files...)
 	if len(lines) != len(files) {
 		t.Fatalf("%d lines for %d files", len(lines), len(files))
@@ -96,6 +151,29 @@ func TestCheckAgreesWithSolve(t *testing.T) {
 				t.Errorf("%s: check says %q, solve says %q", file, m.Problem, stderr)
 			}
 			continue
+		}
+		if failed := m.Status == "fail"; failed != (code == 3) {
+			t.Errorf("%s: check says %s, solve exits %d", file, m.Status, code)
+		}
+		var solved struct {
+			Warnings []struct{ Severity, Name string }
+		}
+		if err := json.Unmarshal([]byte(out), &solved); err != nil {
+			t.Fatal(err)
+		}
+		var want, got []string
+		for _, w := range solved.Warnings {
+			if w.Severity == "fail" || w.Severity == "caution" {
+				want = append(want, w.Name)
+			}
+		}
+		for _, w := range m.Warnings {
+			got = append(got, w.Check)
+		}
+		slices.Sort(want)
+		slices.Sort(got)
+		if !slices.Equal(got, want) {
+			t.Errorf("%s: check warns of %q, solve of %q", file, got, want)
 		}
 		if !deflects[filepath.Base(file)] {
 			continue
@@ -220,5 +298,41 @@ func TestProgressBar(t *testing.T) {
 	quick.clear()
 	if out.Len() != 0 {
 		t.Errorf("a batch shorter than a second drew %q", out.String())
+	}
+}
+
+// --units names the places of the checks in the text as solve --units
+// does; the JSON's lengths stay in metres. 4 m is 13.12 ft (1 ft = 0.3048 m
+// exactly, NIST SP 811, appendix B); the deflection 5qL⁴/(384EI) =
+// 20.83 mm of the simply supported beam (Gere & Goodno, beam deflection
+// tables, from memory) does not depend on the units shown.
+func TestCheckUnits(t *testing.T) {
+	ss := "../../testdata/simply_supported_uniform.json"
+	us := edited(t, ss, "shown_in_us.json", func(doc map[string]any) { doc["view"].(map[string]any)["units"] = "US" })
+	for _, c := range []struct {
+		name  string
+		args  []string
+		place string
+	}{
+		{"the file's units by default", []string{ss}, "Deflection, span 0 m to 4.000 m"},
+		{"the file's US units by default", []string{us}, "Deflection, span 0 ft to 13.12 ft"},
+		{"US asked for", []string{"--units", "US", ss}, "Deflection, span 0 ft to 13.12 ft"},
+		{"SI asked for a file shown in US", []string{us, "--units", "SI"}, "Deflection, span 0 m to 4.000 m"},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			code, out, stderr := runStave(t, append([]string{"check"}, c.args...)...)
+			if code != 3 || !strings.Contains(out, c.place) {
+				t.Errorf("exit %d (want 3, the deflection fails), no %q in:\n%s%s", code, c.place, out, stderr)
+			}
+			_, lines := checkJSON(t, c.args...)
+			const q, L, E, I = 10e3, 4.0, 200e9, 8e-6
+			want := 5 * q * L * L * L * L / (384 * E * I)
+			if d := lines[0].Deflection; d == nil || math.Abs(d.Deflection-want) > 1e-9*want || d.Span != L {
+				t.Errorf("JSON deflection %+v, want %g m over %g m", d, want, L)
+			}
+		})
+	}
+	if code, _, stderr := runStave(t, "check", "--units", "imperial", ss); code != 2 || !strings.Contains(stderr, "unknown unit system") {
+		t.Errorf("--units imperial: exit %d, stderr %q; want 2, naming the unknown system", code, stderr)
 	}
 }

@@ -10,7 +10,6 @@ import (
 
 	"stave/canvas"
 	"stave/canvas/report"
-	"stave/fem/units"
 	"stave/storage"
 )
 
@@ -63,12 +62,8 @@ func exportCommand(args []string, stdout io.Writer) error {
 		}
 		opts.CSVPoints = *points
 	}
-	if *system != "" {
-		u, ok := units.ByName(*system)
-		if !ok {
-			return usageError{fmt.Sprintf("unknown unit system %q: use SI or US", *system)}
-		}
-		opts.Units = u
+	if opts.Units, err = unitsFlag(*system); err != nil {
+		return err
 	}
 	p, err := storage.Load(path)
 	if err != nil {

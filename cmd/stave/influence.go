@@ -46,12 +46,12 @@ func influenceCommand(args []string, stdout io.Writer) error {
 	if err != nil {
 		return modelError{err}
 	}
-	sys := report.UnitSystem(p.View.Units)
-	if *system != "" {
-		var ok bool
-		if sys, ok = units.ByName(*system); !ok {
-			return usageError{fmt.Sprintf("unknown unit system %q: use SI or US", *system)}
-		}
+	sys, err := unitsFlag(*system)
+	if err != nil {
+		return err
+	}
+	if sys.Name == "" {
+		sys = report.UnitSystem(p.View.Units)
 	}
 	target, err := parseTarget(*quantity, *at, *side, *support, *motion, sys)
 	if err != nil {

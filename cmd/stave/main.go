@@ -7,7 +7,7 @@
 //	stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet | --multiples] [--elements N] [--dpi N] [--points N] [--units SI|US] [--show NAME]
 //	stave converge [--json] [--max N] [--target E] FILE
 //	stave influence FILE --quantity Q [--at X] [--support N] [--envelope] [--json]
-//	stave check [--json | --csv] [--workers N] FILE... | DIR
+//	stave check [--json | --csv] [--workers N] [--units SI|US] FILE... | DIR
 //	stave bench [--json]
 //	stave version
 //
@@ -103,14 +103,14 @@ const usage = `usage:
   stave converge [--json] [--max N] [--target E] FILE
   stave influence FILE --quantity Q [--at X] [--side left|right] [--support N]
                [--motion M] [--points N] [--envelope] [--json] [--units SI|US]
-  stave check [--json | --csv] [--workers N] FILE... | DIR
+  stave check [--json | --csv] [--workers N] [--units SI|US] FILE... | DIR
   stave bench [--json]
   stave version
   stave COMMAND --help                 the flags of a command
 
 exit status: 0 solved, no check failed; 3 solved and written, but a check failed
-(the warnings say why); 1 model refused; 2 command line misused; check: the
-worst member's
+(the warnings say why); 1 model refused; 2 command line misused; check exits
+with its worst member's
 `
 
 // The calculation sheets and the solve text name the version, from the

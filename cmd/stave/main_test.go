@@ -296,13 +296,14 @@ func TestExportCSVPointsAndUnits(t *testing.T) {
 	out := filepath.Join(dir, "fields.csv")
 	elements := 0
 	for _, c := range []struct {
-		args  []string
-		units string
-		rows  int // per element
+		args    []string
+		units   string
+		rows    int    // per element
+		preface string // what the table says of them
 	}{
-		{nil, "SI", 5},
-		{[]string{"--points", "1", "--units", "US"}, "US", 2},
-		{[]string{"--points", "7", "--units", "SI"}, "SI", 8},
+		{nil, "SI", 5, "# Each element at 5 evenly spaced points (4 intervals), both ends included."},
+		{[]string{"--points", "1", "--units", "US"}, "US", 2, "# Each element at its 2 ends (1 interval)."},
+		{[]string{"--points", "7", "--units", "SI"}, "SI", 8, "# Each element at 8 evenly spaced points (7 intervals), both ends included."},
 	} {
 		args := append([]string{"export", "../../testdata/cantilever_tip_load.json", "--out", out}, c.args...)
 		// The cantilever fails its deflection check: written, exit 3.
@@ -316,6 +317,9 @@ func TestExportCSVPointsAndUnits(t *testing.T) {
 		text := string(data)
 		if !strings.Contains(text, "\n# Units: "+c.units+".") {
 			t.Errorf("%v: no units line for %s", c.args, c.units)
+		}
+		if !strings.Contains(text, "\n"+c.preface+"\n") {
+			t.Errorf("%v: the table does not say %q", c.args, c.preface)
 		}
 		for _, want := range []string{"\n# Reactions", "\n# Checks", "\n#   - [design_fail] FAIL — Deflection, cantilever"} {
 			if !strings.Contains(text, want) {
@@ -734,7 +738,7 @@ func TestCommandHelp(t *testing.T) {
 		{"export", []string{"-out", "-sheet", "-points", "-units"}},
 		{"converge", []string{"-json", "-max", "-target"}},
 		{"influence", []string{"-quantity", "-at", "-envelope", "-units"}},
-		{"check", []string{"usage: stave check [flags] FILE... | DIR", "-json", "-csv", "-workers"}},
+		{"check", []string{"usage: stave check [flags] FILE... | DIR", "-json", "-csv", "-workers", "-units"}},
 		{"bench", []string{"usage: stave bench [flags]\n", "-json", "-quick"}},
 	} {
 		code, out, stderr := runStave(t, c.command, "--help")

@@ -29,12 +29,9 @@ func solveCommand(args []string, stdout io.Writer) error {
 	if err != nil {
 		return err
 	}
-	var sys units.System
-	if *system != "" {
-		var ok bool
-		if sys, ok = units.ByName(*system); !ok {
-			return usageError{fmt.Sprintf("unknown unit system %q: use SI or US", *system)}
-		}
+	sys, err := unitsFlag(*system)
+	if err != nil {
+		return err
 	}
 	p, err := storage.Load(path)
 	if err != nil {
@@ -91,6 +88,19 @@ func solveCommand(args []string, stdout io.Writer) error {
 		return modelError{fmt.Errorf("%s: %w", path, a.Err)}
 	}
 	return inDocument(failures(path, src.Findings), *asJSON)
+}
+
+// unitsFlag is the unit system a --units flag names, the zero value when
+// the flag is not given (each command then takes the file's display units).
+func unitsFlag(name string) (units.System, error) {
+	if name == "" {
+		return units.System{}, nil
+	}
+	sys, ok := units.ByName(name)
+	if !ok {
+		return units.System{}, usageError{fmt.Sprintf("unknown unit system %q: use SI or US", name)}
+	}
+	return sys, nil
 }
 
 // newFlagSet makes a flag set that reports misuse as an error, not an exit.

@@ -25,6 +25,7 @@ import (
 
 	"stave/canvas/report"
 	"stave/fem/analysis"
+	"stave/fem/units"
 	"stave/storage"
 )
 
@@ -35,7 +36,7 @@ type Status int
 const (
 	OK      Status = iota // solved, no check failed, nothing to look at
 	Caution               // solved, no check failed, but a finding asks for a look
-	Failed                // solved, and at least one check failed
+	Failed                // solved, but a check failed or the results are unreliable (analysis.Failed)
 	Refused               // the file could not be loaded, or its model not solved
 )
 
@@ -53,18 +54,18 @@ func (s Status) String() string {
 func (s Status) MarshalText() ([]byte, error) { return []byte(s.String()), nil }
 
 // StatusOf grades the findings of a solved model: Failed when any is a
-// failure, Caution when any asks for caution, OK otherwise.
+// failure or marks the results as unreliable (analysis.Failed: `stave
+// solve` then exits 3), Caution when any asks for caution, OK otherwise.
 func StatusOf(fs []analysis.Finding) Status {
-	s := OK
+	if analysis.Failed(fs) {
+		return Failed
+	}
 	for _, f := range fs {
-		switch f.Severity {
-		case analysis.Fail:
-			return Failed
-		case analysis.Caution:
-			s = Caution
+		if f.Severity == analysis.Caution {
+			return Caution
 		}
 	}
-	return s
+	return OK
 }
 
 // Load reads one member's project from its name in the batch.
@@ -77,6 +78,9 @@ type Options struct {
 	Workers int
 	// Load reads a member; nil reads the named file (storage.Load).
 	Load Load
+	// Units are the units the checks name their places and values in; the
+	// zero value takes each file's display units, as `stave solve` does.
+	Units units.System
 }
 
 // linesPerWorker is how far a finished line may run ahead of the first
@@ -131,7 +135,7 @@ func Run(ctx context.Context, names []string, opts Options, emit func(Member) er
 		go func() {
 			defer wg.Done()
 			for i := range jobs {
-				results <- done{i, checkOne(ctx, names[i], load)}
+				results <- done{i, checkOne(ctx, names[i], load, opts.Units)}
 			}
 		}()
 	}
@@ -172,9 +176,10 @@ func Run(ctx context.Context, names []string, opts Options, emit func(Member) er
 	return sum, stop
 }
 
-// checkOne loads and analyses one member and makes its line. A model that
-// makes Stave fail is reported in its line, so the batch goes on.
-func checkOne(ctx context.Context, name string, load Load) (m Member) {
+// checkOne loads and analyses one member and makes its line, its checks
+// in units sys (the file's display units when sys is the zero value). A
+// model that makes Stave fail is reported in its line, so the batch goes on.
+func checkOne(ctx context.Context, name string, load Load, sys units.System) (m Member) {
 	defer func() {
 		if r := recover(); r != nil {
 			m = refused(name, "", fmt.Errorf("Stave failed on this model (an internal error, please report it with the file): %v", r))
@@ -184,11 +189,15 @@ func checkOne(ctx context.Context, name string, load Load) (m Member) {
 	if err != nil {
 		return refused(name, "", err)
 	}
-	a, err := analysis.Run(ctx, report.Request(p, nil))
+	r := report.Request(p, nil)
+	if sys.Name != "" {
+		r.Checks.Units = sys
+	}
+	a, err := analysis.Run(ctx, r)
 	if err != nil {
 		return refused(name, p.Notes.Member, err)
 	}
-	return Line(name, p.Notes.Member, &a)
+	return Line(name, p, &a)
 }
 
 // refused is the line of a member that could not be checked, the reason

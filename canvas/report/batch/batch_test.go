@@ -14,6 +14,7 @@ import (
 
 	"stave/canvas/report"
 	"stave/fem"
+	"stave/fem/analysis"
 	"stave/fem/check"
 	"stave/storage"
 )
@@ -346,6 +347,26 @@ func TestStatusOfFindings(t *testing.T) {
 	for _, m := range lines {
 		if s, ok := want[filepath.Base(m.File)]; ok && m.Status != s {
 			t.Errorf("%s: status %v, want %v", m.File, m.Status, s)
+		}
+	}
+}
+
+// A finding that marks the results unreliable fails the member, as it
+// makes solve exit 3, whatever its severity.
+func TestStatusOfUnreliableResults(t *testing.T) {
+	for _, c := range []struct {
+		name string
+		fs   []analysis.Finding
+		want Status
+	}{
+		{"nothing", nil, OK},
+		{"a note", []analysis.Finding{{Severity: analysis.Note}}, OK},
+		{"a caution", []analysis.Finding{{Severity: analysis.Caution}}, Caution},
+		{"an ill-conditioned solver", []analysis.Finding{{Severity: analysis.Caution}, analysis.CodeCondition.Finding("solver", "ill-conditioned")}, Failed},
+		{"a failed check", []analysis.Finding{{Severity: analysis.Fail}}, Failed},
+	} {
+		if got := StatusOf(c.fs); got != c.want {
+			t.Errorf("%s: %v, want %v", c.name, got, c.want)
 		}
 	}
 }

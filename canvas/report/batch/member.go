@@ -6,8 +6,10 @@ import (
 	"sort"
 	"strings"
 
+	"stave/canvas/report"
 	"stave/fem/analysis"
 	"stave/fem/check"
+	"stave/storage"
 )
 
 // Member is one member's line: what a checking engineer reads first.
@@ -69,15 +71,17 @@ type Warning struct {
 // deflectionCheck starts the name of every deflection check of package check.
 const deflectionCheck = "Deflection, "
 
-// Line is the line of the member in file, of mark, analysed as a (whose
-// second stage has run).
-func Line(file, mark string, a *analysis.Analysis) Member {
-	m := Member{File: file, Mark: mark}
+// Line is the line of the member in file, of project p analysed as a
+// (whose second stage has run). Its findings are those `stave solve`
+// reports: the analysis's, and those of the moving load trains that cannot
+// be placed on the member.
+func Line(file string, p *storage.Project, a *analysis.Analysis) Member {
+	m := Member{File: file, Mark: p.Notes.Member}
 	if a.Err != nil {
 		m.Status, m.Problem = Refused, oneLine(a.Problem())
 		return m
 	}
-	fs := a.Findings()
+	fs := report.NewSource(p, a).WithTrains().Findings
 	m.Status = StatusOf(fs)
 	for _, f := range fs {
 		if f.Severity.Flagged() {
