@@ -100,13 +100,18 @@ func (v *Interval) closedSamples() []Fields {
 // closedRange is Range for a closed-form interval: the extremes of the
 // samples, each sampled turn inside refined on its two pieces.
 func (v *Interval) closedRange(q Quantity) (lo, hi extremum) {
+	return v.closedRangeOf(q.Of)
+}
+
+// closedRangeOf is closedRange of the value of returns from the fields.
+func (v *Interval) closedRangeOf(of func(*Fields) float64) (lo, hi extremum) {
 	s := v.closedSamples()
 	at := func(xi float64) float64 {
 		var f Fields
 		v.closedAt(xi, &f)
-		return q.Of(&f)
+		return of(&f)
 	}
-	return sampledRange(len(s)-1, func(i int) float64 { return q.Of(&s[i]) }, at, exactSteps)
+	return sampledRange(len(s)-1, func(i int) float64 { return of(&s[i]) }, at, exactSteps)
 }
 
 // Steps of refinement of a sampled turn: exactSteps of golden-section

@@ -19,7 +19,10 @@ import (
 type Extreme struct {
 	Quantity Quantity
 	Unit     string // SI unit of the values
-	// Max and Min are the headline extremes, at XMax and XMin (m).
+	// Max and Min are the headline extremes, at XMax and XMin (m). Of the
+	// combined stress they are those of both extreme fibres, σa + |σb| and
+	// σa − |σb| (Interval.FibreRange): the greatest tension and the
+	// greatest compression in either fibre.
 	Max, XMax, Min, XMin float64
 	// FEMax and FEMin are the finite element extremes, at FEXMax and FEXMin (m).
 	FEMax, FEXMax, FEMin, FEXMin float64
@@ -188,8 +191,8 @@ func (x *extremes) Visit(v *ElementView) {
 			x.ends(q, x0, a[q], x1, b[q])
 		}
 	}
-	// Range, kept by the interval for the walk's other visitors.
-	lo, hi := fe.Range(QCombinedStress)
+	// Both fibres: the greatest tension and compression anywhere.
+	lo, hi := fe.FibreRange()
 	x.take(QCombinedStress, lo, hi)
 }
 
@@ -271,10 +274,12 @@ func exactExtremes(e *Exact) *extremes {
 			st := &e.stretches[j]
 			st.interval(0, 1, st.start, st.end, &v)
 			x.seen = true
-			for q := range Quantity(quantityCount) {
+			for q := range Quantity(polynomialQuantities) {
 				lo, hi := v.Range(q)
 				x.take(q, lo, hi)
 			}
+			lo, hi := v.FibreRange()
+			x.take(QCombinedStress, lo, hi)
 		}
 		return x
 	}

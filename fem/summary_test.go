@@ -303,3 +303,77 @@ func TestSummaryNamesTheFirstOfEqualPeaks(t *testing.T) {
 		t.Errorf("largest deflection %g at %g m (exact), %g at %g m (FE), want 0 at the first support", d.Max, d.XMax, d.FEMax, d.FEXMax)
 	}
 }
+
+// The combined stress's extremes are over both extreme fibres, σa + |σb|
+// and σa − |σb|: the largest tension and the largest compression anywhere
+// in the member, whichever fibre is the larger in magnitude. A cantilever
+// fixed at x = 0 with a point load at its tip, axial Pa and transverse Pt
+// down, carries N = Pa and M(0) = Pt·L at its root (statics); its fibres
+// there are N/A ± |M|·c/I (combined axial and bending stress, Gere &
+// Goodno, Mechanics of Materials, from memory). Under compression the
+// root's tension fibre (+475 MPa) is the smaller in magnitude, and under
+// tension its compression fibre: the extremes must show it all the same,
+// from the finite element and from the exact solution.
+func TestCombinedStressExtremesTakeBothFibres(t *testing.T) {
+	const L, A, I, c, E, Pt = 4.0, 0.004, 8e-6, 0.1, 2e11, -10e3
+	for _, Pa := range []float64{-100e3, 100e3} {
+		m := &Model{
+			Segments: []Segment{{Start: 0, End: L,
+				Section: Section{Area: A, SecondMoment: I, FibreDistance: c}, Material: Material{Elastic: E}}},
+			Supports:   []Support{{X: 0, Kind: Fixed}},
+			PointLoads: []PointLoad{{X: L, Axial: Pa, Transverse: Pt}},
+			Mesh:       MeshSettings{Elements: 4},
+		}
+		s, e := solveBoth(t, m)
+		axial, bending := Pa/A, math.Abs(Pt*L)*c/I
+		wantMax, wantMin := axial+bending, axial-bending
+		got := byQuantity(Summarize(s, e))[QCombinedStress]
+		for _, v := range []struct {
+			what      string
+			value, at float64
+			want      float64
+		}{
+			{"largest", got.Max, got.XMax, wantMax}, {"smallest", got.Min, got.XMin, wantMin},
+			{"FE largest", got.FEMax, got.FEXMax, wantMax}, {"FE smallest", got.FEMin, got.FEXMin, wantMin},
+		} {
+			if relErr(v.value, v.want) > 1e-9 || v.at != 0 {
+				t.Errorf("axial %g N: %s combined stress %.6g Pa at x = %g m, want %.6g Pa at the root",
+					Pa, v.what, v.value, v.at, v.want)
+			}
+		}
+	}
+}
+
+// The same where the exact solution is read in closed form (a member on an
+// elastic foundation) and the stresses vary along the member: the
+// extremes of both fibres are those of σa ± σb sampled densely, and no
+// sample lies beyond them (the definition of the extremes).
+func TestCombinedStressExtremesOnAFoundationTakeBothFibres(t *testing.T) {
+	const L = 8.0
+	m := testModel(Support{X: 0, Kind: Pinned})
+	m.Segments = []Segment{testSegment(0, L)}
+	m.Foundations = []Foundation{{Start: 0, End: L, Modulus: 5e6, AxialModulus: 2e6}}
+	// Axial compression large enough that the tension fibre is never the
+	// larger in magnitude, and a transverse load to bend the member both ways.
+	m.PointLoads = []PointLoad{{X: L, Axial: -200e3}, {X: 3, Transverse: -200e3}}
+	m.Mesh.Elements = 32
+	s, e := solveBoth(t, m)
+	got := byQuantity(Summarize(s, e))[QCombinedStress]
+	hi, lo := math.Inf(-1), math.Inf(1)
+	const n = 4000
+	for i := 0; i <= n; i++ {
+		for _, side := range []Side{Left, Right} {
+			f := e.At(L*float64(i)/n, side)
+			hi = max(hi, f.AxialStress+math.Abs(f.BendingStress))
+			lo = min(lo, f.AxialStress-math.Abs(f.BendingStress))
+		}
+	}
+	if hi <= 0 {
+		t.Fatalf("the model has no tension fibre (largest %g Pa): it tests nothing", hi)
+	}
+	scale := max(math.Abs(hi), math.Abs(lo))
+	if math.Abs(got.Max-hi) > 1e-6*scale || math.Abs(got.Min-lo) > 1e-6*scale {
+		t.Errorf("combined stress extremes %.6g and %.6g Pa, want those of both fibres sampled, %.6g and %.6g Pa",
+			got.Max, got.Min, hi, lo)
+	}
+}

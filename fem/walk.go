@@ -360,6 +360,44 @@ func (v *Interval) combinedRange() (lo, hi extremum) {
 	return lo, hi
 }
 
+// FibreRange returns the least and the greatest stress of either extreme
+// fibre on the interval, with where they are: the greatest compression
+// σa − |σb| and the greatest tension σa + |σb|, whichever fibre is the
+// larger in magnitude. Range of the combined stress follows the larger
+// fibre alone, as the field is drawn, and hides the tension fibre under
+// compression and bending (and the compression fibre under tension). Each
+// fibre's stress, σa + σb at the bottom and σa − σb at the top, is one
+// polynomial, read in closed form as Range reads one; the first place met
+// along the interval wins a tie.
+func (v *Interval) FibreRange() (lo, hi Point) {
+	var l, h [2]extremum
+	for i, sign := range [2]float64{1, -1} {
+		l[i], h[i] = v.fibreRange(sign)
+	}
+	if l[1].value < l[0].value || l[1].value == l[0].value && l[1].xi < l[0].xi {
+		l[0] = l[1]
+	}
+	if h[1].value > h[0].value || h[1].value == h[0].value && h[1].xi < h[0].xi {
+		h[0] = h[1]
+	}
+	return Point{v.X(l[0].xi), l[0].value}, Point{v.X(h[0].xi), h[0].value}
+}
+
+// fibreRange is the range of σa + sign·σb on the interval, in ξ.
+func (v *Interval) fibreRange(sign float64) (lo, hi extremum) {
+	of := func(f *Fields) float64 { return f.AxialStress + sign*f.BendingStress }
+	if v.closed.stretch != nil {
+		return v.closedRangeOf(of)
+	}
+	p := combine(1, &v.poly[QAxialStress], sign, &v.poly[QBendingStress])
+	d := max(v.degree[QAxialStress], v.degree[QBendingStress])
+	a, b := of(v.End(0)), of(v.End(1))
+	if d <= 1 || !turnsInside(&p, d) {
+		return endsRange(a, b)
+	}
+	return rangeOn(&p, d, a, b)
+}
+
 // ElementView is one element of a walk: where it is in the mesh, and the
 // finite element solution on it with, when the walk has one, the exact
 // solution of the same model. A walk reuses one view for every element:

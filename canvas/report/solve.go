@@ -544,6 +544,7 @@ func WriteResultsText(w io.Writer, src Source) {
 		}
 	}
 	tw.Flush()
+	fmt.Fprintln(w, "  Combined stress N/A ± M·c/I: largest, the greatest tension, and smallest, the greatest compression, in either extreme fibre.")
 	if feBeside {
 		fmt.Fprintln(w, "  FE accuracy: the larger |FE − exact| of the two extremes, as a share of the field's largest magnitude.")
 	}

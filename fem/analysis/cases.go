@@ -328,17 +328,24 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 		// value is the checked quantity of one load set at x: the
 		// deflection from the line through the span's ends (from its
 		// support on an overhang, as check measures it without
-		// settlements), or the stress in the bottom fibre (top when bottom
-		// is false).
+		// settlements; through a spring support where it stands unloaded),
+		// or the stress in the bottom fibre (top when bottom is false).
 		from, to := r.Span[0], r.Span[1]
-		held := func(x float64) bool { return restrainsAcross(&a.Model, x) }
+		held0, spring0 := holdsAcross(&a.Model, from)
+		held1, spring1 := holdsAcross(&a.Model, to)
 		value := func(fixed bool, j int, x float64, bottom bool) float64 {
 			if r.Code == check.CodeDeflection {
 				w0, w1 := fields(fixed, j, from).Deflection, fields(fixed, j, to).Deflection
+				if spring0 {
+					w0 = 0
+				}
+				if spring1 {
+					w1 = 0
+				}
 				switch {
-				case !held(from):
+				case !held0:
 					w0 = w1
-				case !held(to):
+				case !held1:
 					w1 = w0
 				}
 				return fields(fixed, j, x).Deflection - w0 - (w1-w0)*(x-from)/(to-from)
@@ -389,13 +396,17 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 	return words
 }
 
-// restrainsAcross says whether a support of m at x holds it rigidly
-// across, as the deflection checks' spans end at such supports.
-func restrainsAcross(m *fem.Model, x float64) bool {
+// holdsAcross says whether a support of m at x holds it across, rigidly
+// or by a spring, as the deflection checks' spans end at such supports,
+// and whether by a spring alone.
+func holdsAcross(m *fem.Model, x float64) (held, spring bool) {
 	tol := 1e-9 * m.Length()
-	return slices.ContainsFunc(m.Supports, func(s fem.Support) bool {
-		return math.Abs(s.X-x) <= tol && s.Kind.Restrains(fem.Transverse)
-	})
+	for _, s := range m.Supports {
+		if math.Abs(s.X-x) <= tol && s.Holds(fem.Transverse) {
+			return true, !s.Kind.Restrains(fem.Transverse)
+		}
+	}
+	return false, false
 }
 
 // checkArrangement solves combination k with the shares on loaded and its

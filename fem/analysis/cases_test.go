@@ -169,3 +169,35 @@ func TestOverhangCheckTakesPatternLoading(t *testing.T) {
 	}
 	t.Error("no deflection check of the left overhang")
 }
+
+// The same beam with its right support a spring as stiff as a roller: its
+// overhang's deflection check is judged from that support as from a
+// rigid one (the spring's give, a ten-millionth of the tip's rise, counts
+// as deflection), so the worst pattern is again the imposed load on the
+// middle span alone, and the tip rises by the same 0.23121875 m to a part
+// in 10⁵ (the derivation above).
+func TestOverhangBeyondASpringTakesPatternLoading(t *testing.T) {
+	uniform := func(w float64) []fem.DistributedLoad {
+		return []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: w}, {X: 12, Intensity: w}}}}
+	}
+	m := fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 12, Section: fem.Section{Area: 0.004, SecondMoment: 1.6e-5, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: 2e11}}},
+		Supports:     []fem.Support{{X: 2, Kind: fem.Pinned}, {X: 10, Kind: fem.Spring, Stiffness: [3]float64{0, 1e12, 0}}},
+		Cases:        []fem.LoadCase{{Name: "permanent", DistributedLoad: uniform(-3e3)}, {Name: "imposed", DistributedLoad: uniform(-10e3), BySpan: true}},
+		Combinations: []fem.Combination{{Name: "U", Kind: fem.Serviceability, Factors: []fem.CaseFactor{{Case: 0, Factor: 1.35}, {Case: 1, Factor: 1.5}}}},
+	}
+	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
+	if err != nil || a.Err != nil {
+		t.Fatalf("%v, %v", err, a.Err)
+	}
+	for _, r := range a.Checks {
+		if r.Code == check.CodeDeflection && r.Span == [2]float64{10, 12} {
+			if math.Abs(r.Value-0.23121875) > 1e-5*0.23121875 || !strings.Contains(r.Name, "imposed on span 2)") {
+				t.Errorf("%s: %.12g m, want 0.23121875 with imposed on span 2", r.Name, r.Value)
+			}
+			return
+		}
+	}
+	t.Error("no deflection check of the right overhang")
+}

@@ -177,7 +177,7 @@ func columns(m *fem.Model) []column {
 	}
 	pinned, _ := LookUpEffectiveLength(Pinned, Pinned)
 	var out []column
-	for _, st := range stretches(m) {
+	for _, st := range stretches(m, false) {
 		c := column{a: st.a, b: st.b, factor: pinned, known: !st.overhangs,
 			note: "a span between supports, taken as pinned at both ends (conservative: continuity over the supports only helps)"}
 		if st.overhangs {

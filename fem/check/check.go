@@ -247,7 +247,7 @@ type Probe struct {
 // its exact solution e (nil when not available), to be shown every element
 // of s in a walk (fem.Walk) before its Results are read.
 func NewProbe(m *fem.Model, s *fem.Solution, e *fem.Exact) *Probe {
-	p := &Probe{model: m, solution: s, exact: e, parts: stretches(m), columns: columns(m)}
+	p := &Probe{model: m, solution: s, exact: e, parts: stretches(m, true), columns: columns(m)}
 	els := s.Mesh.Elements
 	p.partCover, p.columnCover = newCover(els, len(p.parts)), newCover(els, len(p.columns))
 	p.chords = make([][2]chordLine, len(p.parts))

@@ -342,3 +342,61 @@ func TestDesignChecksReadTheExactSolution(t *testing.T) {
 		t.Errorf("without an exact solution the message must say so: %q", alone.Message)
 	}
 }
+
+// A transverse spring is a support: the deflection check measures the
+// span between it and the next support against span/n, as between rigid
+// supports (IBC Table 1604.3 takes l as the span between supports, from
+// memory), never as one long cantilever. The spring's give is part of the
+// member's deflection under the loads and is counted. A beam pinned at 0
+// and on a spring k at L under a uniform load q is statically determinate:
+// the spring carries qL/2 and gives δ = qL/(2k) (statics), and the beam
+// turns about the pin as a rigid body on top of the simple beam's
+// 5qL⁴/(384EI) (AISC Manual, beam diagrams, simple beam under a uniform
+// load, from memory). With δ above qL⁴/(24EI), the simple beam's end slope
+// times L, the largest deflection is δ at the spring; with a spring as
+// stiff as a roller, the simple beam's at midspan.
+func TestSpringSupportBoundsASpan(t *testing.T) {
+	const L, q = 5.0, -10e3
+	ei := 200e9 * 0.1 * 0.008 / 12
+	tests := []struct {
+		k, want, at float64
+	}{
+		{5e5, -q * L / (2 * 5e5), L},
+		{1e13, -5 * q * L * L * L * L / (384 * ei), L / 2},
+	}
+	for _, tt := range tests {
+		m := beam(L, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L, Kind: fem.Spring, Stiffness: [3]float64{0, tt.k, 0}}}, 0)
+		m.DistributedLoad = []fem.DistributedLoad{uniform(q, 0, L)}
+		s, e := solveBoth(t, &m)
+		r := find(t, Run(&m, s, e, Options{}), "Deflection")
+		if !strings.HasPrefix(r.Name, "Deflection, span 0 m to 5") || r.Span != [2]float64{0, L} || !near(r.Limit, L/360, 1e-12) {
+			t.Errorf("k = %g: %q over %v against %g m, want the span 0 to %g m against L/360", tt.k, r.Name, r.Span, r.Limit, L)
+		}
+		if !near(r.Value, tt.want, 1e-5) || math.Abs(r.X-tt.at) > 1e-3 {
+			t.Errorf("k = %g: deflection %g m at x = %g m, want %g m at %g m", tt.k, r.Value, r.X, tt.want, tt.at)
+		}
+		if !strings.Contains(r.Message, "spring") {
+			t.Errorf("k = %g: the message does not say how the spring's give is taken: %q", tt.k, r.Message)
+		}
+	}
+}
+
+// A stretch an elastic foundation carries is checked as its supports make
+// it (a cantilever from its one support here: length/180, common practice),
+// and the check's name and message say that the stretch lies on a
+// foundation and that its deflection includes the ground's settlement.
+func TestDeflectionOnAFoundationSaysSo(t *testing.T) {
+	m := beam(10, []fem.Support{{X: 5, Kind: fem.Pinned}}, 0)
+	m.Foundations = []fem.Foundation{{Start: 0, End: 10, Modulus: 2e6}}
+	m.DistributedLoad = []fem.DistributedLoad{uniform(-10e3, 0, 10)}
+	s, e := solveBoth(t, &m)
+	for _, r := range Run(&m, s, e, Options{}) {
+		if r.Code != CodeDeflection {
+			continue
+		}
+		if !strings.Contains(r.Name, "on a foundation") || !near(r.Limit, 5.0/180, 1e-12) ||
+			!strings.Contains(r.Message, "settlement of the ground") {
+			t.Errorf("%q against %g m: %q", r.Name, r.Limit, r.Message)
+		}
+	}
+}

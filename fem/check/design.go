@@ -78,15 +78,25 @@ func DeflectionLimits() []DeflectionLimit {
 type stretch struct {
 	a, b      float64
 	support   [2]bool // whether each end sits on a transverse support
+	spring    [2]bool // whether that support holds it across by a spring alone
 	overhangs bool    // one end is free
+	ground    bool    // a foundation holds some of it across
 }
 
-// stretches splits [0, L] at the rigid transverse supports.
-func stretches(m *fem.Model) []stretch {
+// stretches splits [0, L] at the supports that hold the member across:
+// rigidly, and by a spring too when springs is true. Buckling takes the
+// rigid ones alone (a spring is no pin for a column); deflection takes
+// both, as pattern loading takes its spans (fem.Model.Spans).
+func stretches(m *fem.Model, springs bool) []stretch {
 	var xs []float64
+	elastic := map[float64]bool{}
 	for _, s := range m.Supports {
-		if s.Kind.Restrains(fem.Transverse) {
+		switch {
+		case s.Kind.Restrains(fem.Transverse):
 			xs = append(xs, s.X)
+		case springs && s.Elastic(fem.Transverse):
+			xs = append(xs, s.X)
+			elastic[s.X] = true
 		}
 	}
 	slices.Sort(xs)
@@ -97,14 +107,22 @@ func stretches(m *fem.Model) []stretch {
 	}
 	var out []stretch
 	tol := 1e-9 * L
+	add := func(a, b float64, support [2]bool) {
+		st := stretch{a: a, b: b, support: support, overhangs: !support[0] || !support[1]}
+		st.spring = [2]bool{support[0] && elastic[a], support[1] && elastic[b]}
+		st.ground = slices.ContainsFunc(m.Foundations, func(f fem.Foundation) bool {
+			return f.Modulus > 0 && f.Start < b-tol && f.End > a+tol
+		})
+		out = append(out, st)
+	}
 	if xs[0] > tol {
-		out = append(out, stretch{a: 0, b: xs[0], support: [2]bool{false, true}, overhangs: true})
+		add(0, xs[0], [2]bool{false, true})
 	}
 	for i := 1; i < len(xs); i++ {
-		out = append(out, stretch{a: xs[i-1], b: xs[i], support: [2]bool{true, true}})
+		add(xs[i-1], xs[i], [2]bool{true, true})
 	}
 	if last := xs[len(xs)-1]; last < L-tol {
-		out = append(out, stretch{a: last, b: L, support: [2]bool{true, false}, overhangs: true})
+		add(last, L, [2]bool{true, false})
 	}
 	return out
 }
@@ -113,8 +131,11 @@ func stretches(m *fem.Model) []stretch {
 // supports (so settlements do not count) against span/n.
 func deflectionChecks(p *Probe, o Options) []Result {
 	if len(p.parts) == 0 {
-		return []Result{{Name: "Deflection", Code: CodeDeflection, Status: Info,
-			Message: "No support restrains deflection rigidly, so there is no span to measure deflection against; deflection is not checked."}}
+		msg := "No support holds the member across, rigidly or by a spring, so there is no span to measure deflection against; deflection is not checked."
+		if len(p.model.Foundations) > 0 {
+			msg += " A member a foundation alone carries settles with the ground: check its settlement, and the differences of settlement along it, against the limits of the foundation design."
+		}
+		return []Result{{Name: "Deflection", Code: CodeDeflection, Status: Info, Message: msg}}
 	}
 	var out []Result
 	h := p.headline()
@@ -129,6 +150,9 @@ func deflectionChecks(p *Probe, o Options) []Result {
 			kind = "cantilever"
 		}
 		r.Name = fmt.Sprintf("Deflection, %s %s to %s", kind, o.Units.Format(units.Position, st.a), o.Units.Format(units.Position, st.b))
+		if st.ground {
+			r.Name += ", on a foundation"
+		}
 		r.Limit = length / n
 		r.Status = Pass
 		if r.Value > r.Limit {
@@ -139,11 +163,20 @@ func deflectionChecks(p *Probe, o Options) []Result {
 			// The file and the window set the span ratio only.
 			choice = fmt.Sprintf("applies to every cantilever and overhang, whatever the limit set for spans (span/%g)", o.SpanRatio)
 		}
-		r.Message = fmt.Sprintf("The largest deflection in this %s is %s at x = %s, measured from the line through the supports (settlement not counted), from %s. The limit %s/%g = %s %s (common practice: span/360 for floors under live load, /240 under total load, length/180 for cantilevers). This deflection comes from every load in the model, self-weight included: compare it with a total-load limit, or model the live load alone for a live-load limit.",
-			kind, o.Units.Format(units.Deflection, r.Value), o.Units.Format(units.Position, r.X), p.fromWhat(),
+		measured := "measured from the line through the supports (settlement not counted)"
+		if st.spring[0] || st.spring[1] {
+			measured = "measured from the line through the supports (settlement not counted) where each spring support stands unloaded, so a spring's give under the loads counts as deflection"
+		}
+		r.Message = fmt.Sprintf("The largest deflection in this %s is %s at x = %s, %s, from %s. The limit %s/%g = %s %s (common practice: span/360 for floors under live load, /240 under total load, length/180 for cantilevers). This deflection comes from every load in the model, self-weight included: compare it with a total-load limit, or model the live load alone for a live-load limit.",
+			kind, o.Units.Format(units.Deflection, r.Value), o.Units.Format(units.Position, r.X), measured, p.fromWhat(),
 			kind, n, o.Units.Format(units.Deflection, r.Limit), choice)
 		if st.overhangs {
-			r.Message += " For a cantilever or an overhang the limit uses its own length, and the deflection includes the tilt of the beam over the support."
+			r.Message += " For a cantilever or an overhang the limit uses its own length (length/180 is the common-practice span/360 with the span taken as twice the length), and the deflection includes the tilt of the beam over the support."
+		} else {
+			r.Message += " The span is the distance between its supports, rigid or springs."
+		}
+		if st.ground {
+			r.Message += fmt.Sprintf(" This %s lies on an elastic foundation, which carries it across as well: it is checked as its supports alone make it, and its deflection includes the settlement of the ground under it. Check the settlement, and its differences along the member, against the limits of the foundation design too.", kind)
 		}
 		if s := p.feBeside(o, units.Deflection, r.Value, p.fe.deflection[k]); s != "" {
 			r.Message += " " + strings.TrimSpace(s)
@@ -157,7 +190,8 @@ func deflectionChecks(p *Probe, o Options) []Result {
 }
 
 // chordLine is the deflection of the supports of a part in one solution:
-// the straight line through both supports of a span; for an overhang, the
+// the straight line through both supports of a span (through a spring
+// support where it stands unloaded, so its give counts); for an overhang, the
 // line through its support at the tilt that settlements alone give it (see
 // settlementTilts). A walk reads it twice per element, so it holds what at
 // needs and nothing to choose between.
@@ -171,6 +205,14 @@ type chordLine struct {
 // a span.
 func newChord(src fem.Field, st stretch, tilt float64) chordLine {
 	wa, wb := src.At(st.a, fem.Right).Deflection, src.At(st.b, fem.Left).Deflection
+	// A spring's give is the member's response to the loads: the chord
+	// passes through the spring where it stands unloaded.
+	if st.spring[0] {
+		wa = 0
+	}
+	if st.spring[1] {
+		wb = 0
+	}
 	c := chordLine{a: st.a, span: st.b - st.a, w0: wa, dw: wb - wa}
 	switch {
 	case !st.support[0]:

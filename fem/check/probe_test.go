@@ -64,7 +64,7 @@ type sampledPeaks struct {
 // sampledProbe samples the finite element solution s (source 0) or the
 // exact solution e (source 1), with the sizes of both.
 func sampledProbe(m *fem.Model, s *fem.Solution, e *fem.Exact, source int) sampledPeaks {
-	parts, cols := stretches(m), columns(m)
+	parts, cols := stretches(m, true), columns(m)
 	tilts := settlementTilts(s, m, parts)
 	out := sampledPeaks{stress: make([]float64, len(m.Segments)), deflection: make([]float64, len(parts)), compression: make([]float64, len(cols))}
 	for i, el := range s.Mesh.Elements {
