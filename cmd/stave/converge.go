@@ -19,7 +19,7 @@ func convergeCommand(args []string, stdout io.Writer) error {
 	fs := newFlagSet("converge")
 	asJSON := fs.Bool("json", false, "print the study as JSON")
 	maxPer := fs.Int("max", 64, "finest mesh: elements in every stretch between key points")
-	target := fs.Float64("target", 0, "also refine adaptively until the estimated relative energy error is below this (e.g. 0.01)")
+	target := fs.Float64("target", 0, "also refine adaptively until the estimated and the true relative energy error are both at most this (e.g. 0.01)")
 	path, err := parseOneFile(fs, args, stdout)
 	if err != nil {
 		return err

@@ -24,7 +24,9 @@ type Iteration struct {
 type Adaptive struct {
 	Iterations []Iteration
 	Nodes      []float64 // final mesh, m
-	Reached    bool      // the estimate met the target within maxElements
+	// Reached says the estimate and the true error both met the target
+	// within maxElements.
+	Reached bool
 }
 
 // refineFraction is the share of the largest element estimate above which
@@ -33,7 +35,11 @@ type Adaptive struct {
 const refineFraction = 0.5
 
 // Adapt refines m's mesh until the estimated relative energy-norm error is
-// at most target or the next mesh would exceed maxElements. It starts from
+// at most target or the next mesh would exceed maxElements. The estimate
+// chooses where to refine; since the exact solution is at hand, the true
+// error must meet the target as well before the run stops, so that a
+// target said to be reached is (an estimate can be low: on the first
+// meshes of a beam on an elastic foundation it is about 0.7 of the truth). It starts from
 // two elements per stretch between key points, so that every patch holds
 // enough superconvergent points for the recovery. It stops with ctx's
 // error, and the iterations so far, when ctx is done before a mesh.
@@ -66,7 +72,7 @@ func Adapt(ctx context.Context, m *fem.Model, target float64, maxElements int) (
 		}
 		out.Iterations = append(out.Iterations, it)
 		out.Nodes = s.Mesh.X
-		if estimated <= target {
+		if estimated <= target && it.True <= target {
 			out.Reached = true
 			return out, nil
 		}

@@ -23,7 +23,7 @@
 // from the superconvergent points of the elements of a patch, and the energy
 // of the difference between recovered and finite element actions measures
 // the error. Elements with the largest estimates are halved until the
-// estimate meets a target.
+// estimate and the true error both meet a target.
 package study
 
 import (
