@@ -130,8 +130,9 @@ func (w *Window) setMainMenu() {
 // shortcuts of the canvas too: on the desktop the toolkit offers a
 // shortcut to the main menu first, so they work wherever the focus is, and
 // the canvas takes them where there is no menu bar. Ctrl+Shift+Z redoes as
-// well as Ctrl+Y. Plain keys (tool letters, Delete, Escape) act when no
-// entry has the focus, which has them otherwise.
+// well as Ctrl+Y. Plain keys (tool letters, Delete, Escape) act when
+// nothing or the drawing has the focus (Tab reaches the drawing); a widget
+// in focus has them otherwise.
 func (w *Window) bindKeys(m *fyne.MainMenu) {
 	c := w.win.Canvas()
 	plainKeys := map[fyne.KeyName]func(){}

@@ -297,3 +297,54 @@ func TestWheelZoom(t *testing.T) {
 		t.Errorf("zoomed out to %.3g× the fitted view, beyond %g×", got, zoomOutMost)
 	}
 }
+
+// typeToFocused delivers a key the way the desktop driver does while a
+// widget has the focus: to that widget.
+func typeToFocused(t *testing.T, w *Window, k fyne.KeyName) {
+	t.Helper()
+	f := w.win.Canvas().Focused()
+	if f == nil {
+		t.Fatalf("nothing has the focus to take %s", k)
+	}
+	f.TypedKey(&fyne.KeyEvent{Name: k})
+}
+
+// Tab (fyne's FocusNext) reaches the drawing from any widget, and there the
+// plain keys of the menus act as with nothing in focus: a keyboard user who
+// tabbed into the panels can get back to the tool letters and Delete.
+func TestTabReachesTheDrawing(t *testing.T) {
+	w, _ := newTestWindow(t, demoProject(t))
+	c := w.win.Canvas()
+	c.Focus(w.ui.elements)
+	reached := false
+	for range 200 { // far more than the window's widgets
+		c.FocusNext()
+		if any(c.Focused()) == any(w.draw) {
+			reached = true
+			break
+		}
+	}
+	if !reached {
+		t.Fatal("Tab never put the focus on the drawing")
+	}
+	c.Focused().TypedRune('r')
+	if w.tool != toolSupport {
+		t.Errorf("R on the focused drawing left tool %d, want the support tool", w.tool)
+	}
+	n := len(w.Model().Supports)
+	w.selectItem(canvas.Ref{Kind: canvas.Support, Index: 1})
+	typeToFocused(t, w, fyne.KeyDelete)
+	if got := len(w.Model().Supports); got != n-1 {
+		t.Errorf("Delete on the focused drawing left %d supports, want %d", got, n-1)
+	}
+}
+
+// Clicking the drawing gives it the focus, so the keys act there.
+func TestClickFocusesTheDrawing(t *testing.T) {
+	w, _ := newTestWindow(t, demoProject(t))
+	w.win.Canvas().Focus(w.ui.elements)
+	w.draw.MouseDown(&desktop.MouseEvent{Button: desktop.MouseButtonPrimary})
+	if got := w.win.Canvas().Focused(); any(got) != any(w.draw) {
+		t.Errorf("after a click on the drawing the focus is on %T, want the drawing", got)
+	}
+}
