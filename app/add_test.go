@@ -8,7 +8,6 @@ import (
 	"testing"
 
 	"fyne.io/fyne/v2/test"
-	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
 	"stave/fem"
@@ -246,7 +245,7 @@ func TestTypedValuesMoveTheDrawing(t *testing.T) {
 }
 
 // entriesWith is the properties panel's entries with field k set to text.
-func entriesWith(w *Window, k int, text string) []*widget.Entry {
+func entriesWith(w *Window, k int, text string) []*numberEntry {
 	es := w.ui.panel.entries
 	es[k].SetText(text)
 	return es

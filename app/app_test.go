@@ -12,7 +12,6 @@ import (
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/driver/desktop"
 	"fyne.io/fyne/v2/test"
-	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
 	"stave/canvas/report"
@@ -226,9 +225,9 @@ func TestBadValueLeavesModel(t *testing.T) {
 	w, _ := newTestWindow(t, demoProject(t))
 	w.selectItem(canvas.Ref{Kind: canvas.Support, Index: 0})
 	before := w.Model()
-	var entries []*widget.Entry
+	var entries []*numberEntry
 	for _, o := range test.LaidOutObjects(w.ui.properties) {
-		if e, ok := o.(*widget.Entry); ok {
+		if e, ok := o.(*numberEntry); ok {
 			entries = append(entries, e)
 		}
 	}

@@ -5,7 +5,9 @@
 // drag on the drawing (applied live while the mouse moves) is one step to
 // undo. Everything the mouse places can be typed as well: the Add form
 // (add.go) places supports, loads and segment breaks in display units, and
-// the properties panel edits what is selected. After each change a deep
+// the properties panel edits what is selected. The arrow keys select the
+// items one by one from left to right, Enter goes to the selection's
+// numbers and Escape back to the drawing (keys.go). After each change a deep
 // copy of the model goes to a background solver (solver.go) that keeps only
 // the newest request; its results come back on the UI goroutine and feed
 // the drawing (package canvas), the readout at the mouse position and the

@@ -8,6 +8,7 @@ import (
 	"fyne.io/fyne/v2"
 	fynecanvas "fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/driver/desktop"
+	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
@@ -74,6 +75,7 @@ type drawing struct {
 	hovering bool
 	lastTap  time.Time
 	lastPos  fyne.Position
+	frame    *fynecanvas.Rectangle // in the focus colour while the drawing has the focus
 }
 
 var (
@@ -82,10 +84,12 @@ var (
 	_ fyne.Scrollable   = (*drawing)(nil)
 	_ desktop.Mouseable = (*drawing)(nil)
 	_ desktop.Hoverable = (*drawing)(nil)
+	_ fyne.Focusable    = (*drawing)(nil)
 )
 
 func newDrawing(w *Window) *drawing {
-	d := &drawing{w: w, view: canvas.NewView(800, 500)}
+	d := &drawing{w: w, view: canvas.NewView(800, 500), frame: fynecanvas.NewRectangle(color.Transparent)}
+	d.frame.StrokeWidth = 2
 	d.ExtendBaseWidget(d)
 	return d
 }
@@ -138,7 +142,38 @@ func (d *drawing) hit(p fyne.Position) canvas.Ref {
 func (d *drawing) MouseDown(ev *desktop.MouseEvent) {
 	d.button = ev.Button
 	if c := fyne.CurrentApp().Driver().CanvasForObject(d); c != nil {
-		c.Unfocus() // so tool letters and Delete reach the window
+		c.Focus(d) // so tool letters and Delete reach the window
+	}
+}
+
+// The drawing takes the focus, by a click or by Tab, so a keyboard user
+// who tabbed into the panels can come back to it: there the keys the
+// window reads with nothing in focus (bindKeys) act as well. A frame in
+// the theme's focus colour shows it has the focus.
+
+// FocusGained is part of fyne.Focusable.
+func (d *drawing) FocusGained() { d.showFocus(theme.Color(theme.ColorNameFocus)) }
+
+// FocusLost is part of fyne.Focusable.
+func (d *drawing) FocusLost() { d.showFocus(color.Transparent) }
+
+// showFocus colours the frame, leaving the scene as it is.
+func (d *drawing) showFocus(c color.Color) {
+	d.frame.StrokeColor = c
+	d.frame.Refresh()
+}
+
+// TypedRune is part of fyne.Focusable: the window's plain keys.
+func (d *drawing) TypedRune(r rune) {
+	if f := d.w.win.Canvas().OnTypedRune(); f != nil {
+		f(r)
+	}
+}
+
+// TypedKey is part of fyne.Focusable: the window's plain keys.
+func (d *drawing) TypedKey(k *fyne.KeyEvent) {
+	if f := d.w.win.Canvas().OnTypedKey(); f != nil {
+		f(k)
 	}
 }
 
@@ -205,6 +240,7 @@ type drawingRenderer struct {
 
 func (r *drawingRenderer) Layout(size fyne.Size) {
 	r.background.Resize(size)
+	r.d.frame.Resize(size)
 	if size != r.size {
 		r.size = size
 		r.d.view.Resize(size.Width, size.Height)
@@ -228,6 +264,7 @@ func (r *drawingRenderer) Refresh() {
 	}
 	r.d.scene = canvas.Build(in, r.d.view)
 	r.objects = append([]fyne.CanvasObject{r.background}, drawScene(r.d.scene)...)
+	r.objects = append(r.objects, r.d.frame)
 	r.background.Refresh()
 }
 

@@ -2,29 +2,37 @@ package app
 
 import (
 	"math"
+	"slices"
+	"sort"
 	"strings"
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/driver/desktop"
+
+	"stave/canvas"
+	"stave/fem"
 )
 
 // The keys of the menu items. Ctrl+Z and Ctrl+Y reach a window as Fyne's
 // own undo and redo shortcuts, not as custom ones, so those are what is bound.
 var (
-	keyUndo      fyne.Shortcut = &fyne.ShortcutUndo{}
-	keyRedo      fyne.Shortcut = &fyne.ShortcutRedo{}
-	keyRedoShift               = ctrl(fyne.KeyZ, fyne.KeyModifierShift)
-	keyNew                     = ctrl(fyne.KeyN, 0)
-	keyOpen                    = ctrl(fyne.KeyO, 0)
-	keySave                    = ctrl(fyne.KeyS, 0)
-	keySaveAs                  = ctrl(fyne.KeyS, fyne.KeyModifierShift)
-	keyQuit                    = ctrl(fyne.KeyQ, 0)
-	keyAdd                     = plain(fyne.KeyA)
-	keyDelete                  = plain(fyne.KeyDelete)
-	keyNothing                 = plain(fyne.KeyEscape)
-	keyFit                     = plain(fyne.KeyF)
-	keyZoomIn                  = plain(fyne.KeyPlus)
-	keyZoomOut                 = plain(fyne.KeyMinus)
+	keyUndo         fyne.Shortcut = &fyne.ShortcutUndo{}
+	keyRedo         fyne.Shortcut = &fyne.ShortcutRedo{}
+	keyRedoShift                  = ctrl(fyne.KeyZ, fyne.KeyModifierShift)
+	keyNew                        = ctrl(fyne.KeyN, 0)
+	keyOpen                       = ctrl(fyne.KeyO, 0)
+	keySave                       = ctrl(fyne.KeyS, 0)
+	keySaveAs                     = ctrl(fyne.KeyS, fyne.KeyModifierShift)
+	keyQuit                       = ctrl(fyne.KeyQ, 0)
+	keyAdd                        = plain(fyne.KeyA)
+	keyDelete                     = plain(fyne.KeyDelete)
+	keyNothing                    = plain(fyne.KeyEscape)
+	keyNextItem                   = plain(fyne.KeyRight)
+	keyPreviousItem               = plain(fyne.KeyLeft)
+	keyEditItem                   = plain(fyne.KeyReturn)
+	keyFit                        = plain(fyne.KeyF)
+	keyZoomIn                     = plain(fyne.KeyPlus)
+	keyZoomOut                    = plain(fyne.KeyMinus)
 )
 
 // ctrl is Ctrl (Cmd on macOS) with key and the extra modifiers.
@@ -88,6 +96,9 @@ func (w *Window) mainMenu() *fyne.MainMenu {
 		w.item("Add a support, load or break…", keyAdd, w.showAddForm),
 		w.item("Delete selected", keyDelete, w.deleteSelected),
 		w.item("Select nothing", keyNothing, w.selectNothing),
+		w.item("Select the next item", keyNextItem, func() { w.stepSelection(1) }),
+		w.item("Select the previous item", keyPreviousItem, func() { w.stepSelection(-1) }),
+		w.item("Type the selection's numbers", keyEditItem, w.editSelection),
 	)
 	toolMenu := fyne.NewMenu("Tools")
 	for _, t := range tools {
@@ -130,8 +141,9 @@ func (w *Window) setMainMenu() {
 // shortcuts of the canvas too: on the desktop the toolkit offers a
 // shortcut to the main menu first, so they work wherever the focus is, and
 // the canvas takes them where there is no menu bar. Ctrl+Shift+Z redoes as
-// well as Ctrl+Y. Plain keys (tool letters, Delete, Escape) act when no
-// entry has the focus, which has them otherwise.
+// well as Ctrl+Y. Plain keys (tool letters, Delete, Escape) act when
+// nothing or the drawing has the focus (Tab reaches the drawing); a widget
+// in focus has them otherwise.
 func (w *Window) bindKeys(m *fyne.MainMenu) {
 	c := w.win.Canvas()
 	plainKeys := map[fyne.KeyName]func(){}
@@ -178,12 +190,72 @@ func (w *Window) bindKeys(m *fyne.MainMenu) {
 var keyAliases = map[fyne.KeyName]fyne.KeyName{
 	fyne.KeyBackspace: fyne.KeyDelete,
 	fyne.KeyEqual:     fyne.KeyPlus,
+	fyne.KeyEnter:     fyne.KeyReturn,
 }
 
 // selectNothing drops the selection and goes back to the Pick tool.
 func (w *Window) selectNothing() {
 	w.selectItem(canvasNone)
 	w.setTool(toolPick)
+}
+
+// items lists the items of m a keyboard user steps through, from left
+// to right by where they start; at one place segments come first, then
+// supports, hinges, foundations, distributed and point loads.
+func items(m *fem.Model) []canvas.Ref {
+	type item struct {
+		ref canvas.Ref
+		x   float64
+	}
+	var all []item
+	add := func(k canvas.RefKind, n int, x func(i int) float64) {
+		for i := range n {
+			all = append(all, item{canvas.Ref{Kind: k, Index: i}, x(i)})
+		}
+	}
+	add(canvas.Segment, len(m.Segments), func(i int) float64 { return m.Segments[i].Start })
+	add(canvas.Support, len(m.Supports), func(i int) float64 { return m.Supports[i].X })
+	add(canvas.Hinge, len(m.Hinges), func(i int) float64 { return m.Hinges[i].X })
+	add(canvas.Foundation, len(m.Foundations), func(i int) float64 { return m.Foundations[i].Start })
+	add(canvas.DistributedLoad, len(m.DistributedLoad), func(i int) float64 { return m.DistributedLoad[i].Points[0].X })
+	add(canvas.PointLoad, len(m.PointLoads), func(i int) float64 { return m.PointLoads[i].X })
+	sort.SliceStable(all, func(a, b int) bool { return all[a].x < all[b].x })
+	refs := make([]canvas.Ref, len(all))
+	for i, it := range all {
+		refs[i] = it.ref
+	}
+	return refs
+}
+
+// stepSelection selects the item by after the selected one in the order of
+// items, round from the last to the first; with none selected (or what the
+// order does not hold) the first going right, the last going left.
+func (w *Window) stepSelection(by int) {
+	refs := items(&w.project.Model)
+	if len(refs) == 0 {
+		w.setStatus("nothing to select: draw the member first (choose Member, or A to add by typing)")
+		return
+	}
+	cur := w.selected
+	if cur.Kind == canvas.LoadVertex {
+		cur = canvas.Ref{Kind: canvas.DistributedLoad, Index: cur.Index}
+	}
+	next := 0
+	if by < 0 {
+		next = len(refs) - 1
+	}
+	if k := slices.Index(refs, cur); k >= 0 {
+		next = (k + by + len(refs)) % len(refs)
+	}
+	w.selectItem(refs[next])
+	w.setStatus("selected %s: → and ← step on, Enter types its numbers, Delete removes it", describe(refs[next]))
+}
+
+// editSelection puts the focus on the first number of the properties panel.
+func (w *Window) editSelection() {
+	if p := &w.ui.panel; len(p.entries) > 0 {
+		w.win.Canvas().Focus(p.entries[0])
+	}
 }
 
 // Zooming: one step of a key or a wheel notch, and how far the view may

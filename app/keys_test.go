@@ -3,6 +3,7 @@ package app
 import (
 	"errors"
 	"fmt"
+	"math"
 	"reflect"
 	"strings"
 	"testing"
@@ -295,5 +296,148 @@ func TestWheelZoom(t *testing.T) {
 	}
 	if got := d.view.Scale / d.fittedView().Scale; got < zoomOutMost*0.9999 {
 		t.Errorf("zoomed out to %.3g× the fitted view, beyond %g×", got, zoomOutMost)
+	}
+}
+
+// typeToFocused delivers a key the way the desktop driver does while a
+// widget has the focus: to that widget.
+func typeToFocused(t *testing.T, w *Window, k fyne.KeyName) {
+	t.Helper()
+	f := w.win.Canvas().Focused()
+	if f == nil {
+		t.Fatalf("nothing has the focus to take %s", k)
+	}
+	f.TypedKey(&fyne.KeyEvent{Name: k})
+}
+
+// Tab (fyne's FocusNext) reaches the drawing from any widget, and there the
+// plain keys of the menus act as with nothing in focus: a keyboard user who
+// tabbed into the panels can get back to the tool letters and Delete.
+func TestTabReachesTheDrawing(t *testing.T) {
+	w, _ := newTestWindow(t, demoProject(t))
+	c := w.win.Canvas()
+	c.Focus(w.ui.elements)
+	reached := false
+	for range 200 { // far more than the window's widgets
+		c.FocusNext()
+		if any(c.Focused()) == any(w.draw) {
+			reached = true
+			break
+		}
+	}
+	if !reached {
+		t.Fatal("Tab never put the focus on the drawing")
+	}
+	c.Focused().TypedRune('r')
+	if w.tool != toolSupport {
+		t.Errorf("R on the focused drawing left tool %d, want the support tool", w.tool)
+	}
+	n := len(w.Model().Supports)
+	w.selectItem(canvas.Ref{Kind: canvas.Support, Index: 1})
+	typeToFocused(t, w, fyne.KeyDelete)
+	if got := len(w.Model().Supports); got != n-1 {
+		t.Errorf("Delete on the focused drawing left %d supports, want %d", got, n-1)
+	}
+}
+
+// Clicking the drawing gives it the focus, so the keys act there.
+func TestClickFocusesTheDrawing(t *testing.T) {
+	w, _ := newTestWindow(t, demoProject(t))
+	w.win.Canvas().Focus(w.ui.elements)
+	w.draw.MouseDown(&desktop.MouseEvent{Button: desktop.MouseButtonPrimary})
+	if got := w.win.Canvas().Focused(); any(got) != any(w.draw) {
+		t.Errorf("after a click on the drawing the focus is on %T, want the drawing", got)
+	}
+}
+
+// The arrow keys step the selection through the member's items from left
+// to right, each once, and round again; Enter puts the focus on the
+// selection's first number, so an item is moved by typing alone.
+func TestSelectAndEditByKeyboard(t *testing.T) {
+	w, _ := newTestWindow(t, demoProject(t))
+	m := w.Model()
+	n := len(m.Segments) + len(m.Supports) + len(m.Hinges) + len(m.Foundations) + len(m.PointLoads) + len(m.DistributedLoad)
+	seen := map[canvas.Ref]bool{}
+	lastX := math.Inf(-1)
+	var first canvas.Ref
+	for i := range n {
+		typeKey(w, fyne.KeyRight)
+		r := w.selected
+		if i == 0 {
+			first = r
+		}
+		if r.Kind == canvas.None || seen[r] {
+			t.Fatalf("Right no. %d selected %v (seen before: %v)", i+1, r, seen[r])
+		}
+		seen[r] = true
+		x := itemX(t, &m, r)
+		if x < lastX {
+			t.Errorf("Right went from x = %g m back to %s at x = %g m", lastX, describe(r), x)
+		}
+		lastX = x
+	}
+	typeKey(w, fyne.KeyRight)
+	if w.selected != first {
+		t.Errorf("Right after the last item selected %v, want the first, %v", w.selected, first)
+	}
+	typeKey(w, fyne.KeyLeft)
+	if itemX(t, &m, w.selected) != lastX {
+		t.Errorf("Left from the first item selected %v, want the last item (x = %g m)", w.selected, lastX)
+	}
+
+	// Support 2 of the demo stands at x = 3 m: select it by keys, move it by typing.
+	for w.selected != (canvas.Ref{Kind: canvas.Support, Index: 1}) {
+		typeKey(w, fyne.KeyRight)
+	}
+	typeKey(w, fyne.KeyReturn)
+	e, ok := w.win.Canvas().Focused().(*numberEntry)
+	if !ok || e != w.ui.panel.entries[0] {
+		t.Fatalf("Enter put the focus on %T, want the support's x", w.win.Canvas().Focused())
+	}
+	e.SetText("2.9 m")
+	e.TypedKey(&fyne.KeyEvent{Name: fyne.KeyReturn})
+	if got := w.Model().Supports[1].X; got != 2.9 {
+		t.Errorf("typing 2.9 m moved support 2 to x = %g m", got)
+	}
+}
+
+// itemX is where the item r of m starts, m.
+func itemX(t *testing.T, m *fem.Model, r canvas.Ref) float64 {
+	t.Helper()
+	switch r.Kind {
+	case canvas.Segment:
+		return m.Segments[r.Index].Start
+	case canvas.Support:
+		return m.Supports[r.Index].X
+	case canvas.Hinge:
+		return m.Hinges[r.Index].X
+	case canvas.Foundation:
+		return m.Foundations[r.Index].Start
+	case canvas.PointLoad:
+		return m.PointLoads[r.Index].X
+	case canvas.DistributedLoad:
+		return m.DistributedLoad[r.Index].Points[0].X
+	}
+	t.Fatalf("%v is not an item of the member", r)
+	return 0
+}
+
+// Escape in a number of the properties panel gives the focus back to the
+// drawing, where the arrow keys select the next item.
+func TestEscapeFromPropertiesToDrawing(t *testing.T) {
+	w, _ := newTestWindow(t, demoProject(t))
+	typeKey(w, fyne.KeyRight)
+	typeKey(w, fyne.KeyReturn)
+	if w.win.Canvas().Focused() == nil {
+		t.Fatal("Enter put the focus nowhere")
+	}
+	typeToFocused(t, w, fyne.KeyEscape)
+	if got := w.win.Canvas().Focused(); any(got) != any(w.draw) {
+		t.Fatalf("Escape in the properties left the focus on %T, want the drawing", got)
+	}
+	was := w.selected
+	typeToFocused(t, w, fyne.KeyRight)
+	if w.selected == was {
+		t.Errorf("Right on the drawing after Escape kept the selection %v", was)
 	}
 }

@@ -45,7 +45,9 @@ type Input struct {
 	// Cache, when not nil, keeps sampled results between builds (see Cache).
 	Cache *Cache
 	// Envelope, when not nil, is drawn in the strips instead of Solution
-	// (envelope.go); the sketch still shows Solution's deformed shape.
+	// (envelope.go); the sketch still shows Solution's deformed shape and
+	// reactions, which must be the first combination's (Names[0]), and
+	// says whose they are.
 	Envelope *Envelope
 }
 

@@ -45,6 +45,12 @@ func (b *builder) sketch(lay layoutBands) {
 	if b.in.Dimensions {
 		b.scaleBar(lay.top)
 	}
+	if env := b.in.Envelope; env != nil && b.in.Solution != nil && len(env.Names) > 0 {
+		// The strips show the envelope, the sketch one combination's
+		// deflection and reactions (the first's): it says whose.
+		b.place(text1("deflection and reactions: combination "+env.Names[0], smallSize, inkColour, false,
+			labelSpot{8, lay.top + 26 + TextHeight(smallSize), 0, 0}))
+	}
 	var deflected *deflectedShape
 	if b.in.Overlays.DeformedShape && b.in.Solution != nil {
 		deflected = b.deflected(lay)

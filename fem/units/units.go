@@ -249,6 +249,12 @@ func (s System) Parse(q Kind, text string) (float64, error) {
 	if math.IsInf(v, 0) || math.IsNaN(v) {
 		return 0, fmt.Errorf("expected a finite %s such as %s; got '%s'", q, s.example(q), strings.TrimSpace(text))
 	}
+	if strings.HasPrefix(symbol, ",") {
+		return 0, fmt.Errorf("use a point for decimals, such as 1.5, and no thousands separator; got '%s'", strings.TrimSpace(text))
+	}
+	if v == 0 {
+		v = 0 // a typed -0 is zero, not "-0.0 m" in what is said about it
+	}
 	if symbol == "" {
 		return s.FromDisplay(q, v), nil
 	}

@@ -223,6 +223,17 @@ func TestParse(t *testing.T) {
 	}
 }
 
+// A typed minus zero is zero: it must not come back as "-0.0 m" in what
+// the program says about the value.
+func TestParseMinusZero(t *testing.T) {
+	for _, text := range []string{"-0", "-0 m", "−0.0", "-0e3 mm"} {
+		v, err := SI.Parse(Position, text)
+		if err != nil || v != 0 || math.Signbit(v) {
+			t.Errorf("Parse(position, %q) = %v, %v; want +0", text, v, err)
+		}
+	}
+}
+
 func TestParseErrors(t *testing.T) {
 	cases := []struct {
 		q       Kind
@@ -234,6 +245,9 @@ func TestParseErrors(t *testing.T) {
 		{Force, "12 m", "'12 m' is a position, but force is expected here"},
 		{Area, "12 furlongs", "unknown unit 'furlongs' for an area"},
 		{Stress, "1e999 MPa", "expected a finite stress"},
+		// A decimal comma, or a thousands separator, is not a unit.
+		{Position, "1,5", "use a point for decimals, such as 1.5, and no thousands separator; got '1,5'"},
+		{Force, "1,000 kN", "use a point for decimals, such as 1.5, and no thousands separator; got '1,000 kN'"},
 	}
 	for _, c := range cases {
 		_, err := SI.Parse(c.q, c.text)
