@@ -64,7 +64,7 @@ func TestEnvelopeDrawsBothCurvesAndNamesTheCombination(t *testing.T) {
 	// combination's: its reactions are both spans' (end reaction 3qL/8 =
 	// 15 kN, middle 10qL/8 = 50 kN; continuous beam tables, AISC Manual
 	// "Beam Diagrams and Formulas", from memory), and it says whose.
-	for _, want := range []string{"deformed shape and reactions of combination both", "Ry 15.00 kN", "Ry 50.00 kN"} {
+	for _, want := range []string{"deflection and reactions: combination both", "Ry 15.00 kN", "Ry 50.00 kN"} {
 		if !strings.Contains(all, want) {
 			t.Errorf("no label with %q among %s", want, all)
 		}

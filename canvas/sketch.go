@@ -21,13 +21,7 @@ func (b *builder) sketch(lay layoutBands) {
 	x0, x1 := b.clampX(b.sx(0)), b.clampX(b.sx(l))
 	b.band = rect{0, lay.top, b.v.Width, lay.sketchBottom}
 	defer func() { b.band = rect{} }()
-	heading := "Member, supports and loads"
-	if env := b.in.Envelope; env != nil && b.in.Solution != nil && len(env.Names) > 0 {
-		// The strips draw the envelope; the sketch one solution, the first
-		// combination's (analysis.Cases), which it names.
-		heading += "; deformed shape and reactions of combination " + env.Names[0] + " (the diagrams: the envelope)"
-	}
-	title := text1(heading, titleSize, inkColour, true, labelSpot{8, lay.top + 6, 0, 0})
+	title := text1("Member, supports and loads", titleSize, inkColour, true, labelSpot{8, lay.top + 6, 0, 0})
 	title.plain = true
 	b.place(title)
 	if len(m.Segments) == 0 { // a new sketch: what to do first
