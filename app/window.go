@@ -343,7 +343,7 @@ func (w *Window) deliver(a result) {
 		return // stale: the model changed since
 	}
 	w.result = &a
-	w.checks = a.Findings()
+	w.checks = append(a.Findings(), report.UncheckedTrains(&w.project)...)
 	if len(a.Model.Segments) == 0 {
 		w.checks = nil // a new sketch fails nothing: the checks panel says what to do first
 	}

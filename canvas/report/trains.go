@@ -498,10 +498,34 @@ func TrainFindings(trains []TrainResult) []analysis.Finding {
 	return out
 }
 
+// UncheckedTrains are the findings of p's trains that no combination takes:
+// the design checks, the drawn results and the load-case envelope are the
+// member's own loads and cases alone, so a crane runway checked without
+// its crane would pass at the stress of its self-weight. A caution each.
+func UncheckedTrains(p *storage.Project) []analysis.Finding {
+	var out []analysis.Finding
+	for i := range p.Trains {
+		taken := slices.ContainsFunc(p.Model.Combinations, func(cb fem.Combination) bool {
+			return slices.ContainsFunc(cb.Trains, func(tf fem.TrainFactor) bool { return tf.Train == i })
+		})
+		if taken {
+			continue
+		}
+		label := p.Trains[i].Label(i)
+		out = append(out, analysis.CodeTrainNotChecked.Finding(fmt.Sprintf("moving load %s not in the checks", label),
+			fmt.Sprintf("Moving load %s is in no combination, so the design checks and the drawn results take the member's own loads and cases alone. The train's worst effects over all its positions are in the trains' results (stave solve, stave influence --envelope, Study > Moving loads… in the window): check them against your limits, or take the train in a combination with the loads that act with it.", label)))
+	}
+	return out
+}
+
 // WithTrains is src with its trains worked out (Trains) and the findings
-// of those that could not be placed added to its findings.
+// of those that could not be placed, or that no combination takes, added
+// to its findings.
 func (src Source) WithTrains() Source {
 	src.Trains = src.trains()
 	src.Findings = append(slices.Clip(src.Findings), TrainFindings(src.Trains)...)
+	if src.Project != nil {
+		src.Findings = append(src.Findings, UncheckedTrains(src.Project)...)
+	}
 	return src
 }

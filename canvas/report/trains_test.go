@@ -386,3 +386,40 @@ func TestTableAndSheetNameTheTrainsLeftOut(t *testing.T) {
 		t.Errorf("the demo, without trains: lines %q, error %v", trainLines(src), err)
 	}
 }
+
+// A train that no combination takes is in no design check: the runway's
+// checks take its self-weight alone (about 1 % of the allowable stress),
+// so each of its two trains gets a caution that says so, and a train a
+// combination takes gets none of its own (the combination's finding says
+// what the checks leave out).
+func TestTrainsInNoCombinationAreFlagged(t *testing.T) {
+	p, err := storage.Load("../../testdata/moving/runway.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	count := func(p *storage.Project) (n int, names []string) {
+		src, err := Analyse(context.Background(), p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, f := range src.WithTrains().Findings {
+			if f.Code == analysis.CodeTrainNotChecked && strings.Contains(f.Name, "not in the checks") {
+				n++
+				names = append(names, f.Name)
+				if f.Severity != analysis.Caution {
+					t.Errorf("%s: severity %v, want a caution", f.Name, f.Severity)
+				}
+			}
+		}
+		return n, names
+	}
+	if n, names := count(p); n != len(p.Trains) || len(p.Trains) != 2 {
+		t.Errorf("runway with %d trains in no combination: %d cautions %q, want one each", len(p.Trains), n, names)
+	}
+	p.Model.Cases = []fem.LoadCase{{Name: "own", PointLoads: []fem.PointLoad{{X: 1, Transverse: -1e3}}}}
+	p.Model.Combinations = []fem.Combination{{Name: "with the first", Factors: []fem.CaseFactor{{Case: 0, Factor: 1}},
+		Trains: []fem.TrainFactor{{Train: 0, Factor: 1.5}}}}
+	if n, names := count(p); n != 1 || !strings.Contains(names[0], p.Trains[1].Name) {
+		t.Errorf("first train in a combination: cautions %q, want one, for the second train %q", names, p.Trains[1].Name)
+	}
+}

@@ -56,7 +56,7 @@ var Codes = []CodeInfo{
 	{CodeDesignWithinLimit, OK, false, "a design check is within its limit (a finding about the member, not an approval)"},
 	{CodeVerified, OK, false, "a verification of the answer (equilibrium, error against the exact solution, handbook) agrees"},
 	{CodePending, Pending, false, "the exact solution and the checks follow (the window, while the drawing moves)"},
-	{CodeTrainNotChecked, Caution, false, "a combination takes a moving load train, which the design checks and the drawn envelope leave out: the train's part is in the trains' results"},
+	{CodeTrainNotChecked, Caution, false, "a moving load train is left out of the design checks and the drawn results: a combination takes it (the checks and the drawn envelope take the combination's cases alone), or no combination does (they take the member's own loads and cases alone); the train's part is in the trains' results"},
 	{CodeTrainNotPlaced, Caution, false, "a moving load train could not be placed on the member (the message says why: it does not fit, say): the trains' results leave it out"},
 }
 
