@@ -274,10 +274,18 @@ func exactExtremes(e *Exact) *extremes {
 			st := &e.stretches[j]
 			st.interval(0, 1, st.start, st.end, &v)
 			x.seen = true
+			// The stretch's start first: a value later in it that ties
+			// with it to round-off (the two ends of a symmetric span)
+			// does not take its place.
+			start := v.End(0)
 			for q := range Quantity(polynomialQuantities) {
+				at := Point{v.Start, q.Of(start)}
+				x.take(q, at, at)
 				lo, hi := v.Range(q)
 				x.take(q, lo, hi)
 			}
+			bending := math.Abs(start.BendingStress)
+			x.take(QCombinedStress, Point{v.Start, start.AxialStress - bending}, Point{v.Start, start.AxialStress + bending})
 			lo, hi := v.FibreRange()
 			x.take(QCombinedStress, lo, hi)
 		}

@@ -304,6 +304,34 @@ func TestSummaryNamesTheFirstOfEqualPeaks(t *testing.T) {
 	}
 }
 
+// Within one stretch of the exact solution the first place wins a tie too:
+// a beam fixed at both ends under a uniform load w has M = −wL²/12 at both
+// ends and zero deflection there (AISC Manual, beam diagrams and formulas,
+// beam fixed at both ends, from memory); the exact solution is one stretch,
+// whose two ends differ by round-off, and its extremes are named at x = 0,
+// as the finite element ones are.
+func TestSummaryNamesTheFirstEndOfOneStretch(t *testing.T) {
+	const L, w = 6.0, 10e3
+	m := &Model{
+		Segments: []Segment{{Start: 0, End: L,
+			Section:  Section{Area: 0.01, SecondMoment: 1e-4, FibreDistance: 0.2},
+			Material: Material{Elastic: 200e9}}},
+		Supports:        []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Fixed}},
+		DistributedLoad: []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -w}, {L, -w}}}},
+	}
+	sum := Summarize(solveBoth(t, m))
+	mo := sum.Extremes[QBendingMoment]
+	if want := -w * L * L / 12; math.Abs(mo.Min-want) > 1e-9*w*L*L || mo.XMin != 0 || mo.FEXMin != 0 {
+		t.Errorf("smallest moment %g at %g m (exact), FE at %g m; want %g at 0 in both", mo.Min, mo.XMin, mo.FEXMin, want)
+	}
+	if d := sum.Extremes[QDeflection]; d.Max != 0 || d.XMax != 0 || d.FEXMax != 0 {
+		t.Errorf("largest deflection %g at %g m (exact), FE at %g m; want 0 at x = 0 in both", d.Max, d.XMax, d.FEXMax)
+	}
+	if c := sum.Extremes[QCombinedStress]; c.XMax != 0 || c.XMin != 0 {
+		t.Errorf("combined stress extremes at %g and %g m (exact); want both at x = 0, where the end moment puts ±wL²c/(12I)", c.XMin, c.XMax)
+	}
+}
+
 // The combined stress's extremes are over both extreme fibres, σa + |σb|
 // and σa − |σb|: the largest tension and the largest compression anywhere
 // in the member, whichever fibre is the larger in magnitude. A cantilever
