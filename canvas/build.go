@@ -300,7 +300,10 @@ func layout(l storage.Overlays, v View, rows int, nodal bool) layoutBands {
 	// Below the member: support symbols, rows of reactions and two dimension lines.
 	lay.memberY = top + max(sketch*0.5, sketch-belowMember(rows)-40)
 	if n > 0 {
-		stripH := max(90, (v.Height-sketch)/float32(n))
+		// Below their comfortable 90 px the strips share what the
+		// sketch leaves, down to 72 px (a laptop's drawing of 365 px with
+		// two diagrams), before they run on below the edge, to be panned to.
+		stripH := max(72, (v.Height-sketch)/float32(n))
 		y := lay.sketchBottom
 		if nodal {
 			lay.nodal = &stripPlace{top: y, bottom: y + stripH}

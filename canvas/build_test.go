@@ -9,6 +9,7 @@ import (
 
 	"stave/fem"
 	"stave/fem/units"
+	"stave/storage"
 )
 
 // scenePoints counts the coordinates a renderer must handle.
@@ -317,4 +318,22 @@ func hasColour(s *Scene, c color.NRGBA, x0, x1 float32) bool {
 		}
 	}
 	return false
+}
+
+// On a laptop's screen (1280 × 720, where the window's drawing measures
+// 731 × 365 px) the sketch and two diagrams, the demo's shear force and
+// bending moment, fit in the drawing: nothing of the lower diagram runs
+// below its edge. Three or more may run on, to be panned to.
+func TestTwoDiagramsFitALaptopDrawing(t *testing.T) {
+	v := NewView(731, 365)
+	lay := layout(storage.Overlays{ShearForce: true, BendingMoment: true}, v, 1, false)
+	if len(lay.strips) != 2 {
+		t.Fatalf("%d strips, want 2", len(lay.strips))
+	}
+	if bottom := lay.strips[1].bottom; bottom > v.Height {
+		t.Errorf("the lower diagram ends at %g px, below the drawing's %g px", bottom, v.Height)
+	}
+	if s := lay.strips[0]; s.top < lay.sketchBottom || s.bottom-s.top < 72 {
+		t.Errorf("the upper diagram runs from %g to %g px under a sketch ending at %g px: want at least 72 px below it", s.top, s.bottom, lay.sketchBottom)
+	}
 }
