@@ -300,10 +300,15 @@ func layout(l storage.Overlays, v View, rows int, nodal bool) layoutBands {
 	// Below the member: support symbols, rows of reactions and two dimension lines.
 	lay.memberY = top + max(sketch*0.5, sketch-belowMember(rows)-40)
 	if n > 0 {
-		// Below their comfortable 90 px the strips share what the
-		// sketch leaves, down to 72 px (a laptop's drawing of 365 px with
-		// two diagrams), before they run on below the edge, to be panned to.
-		stripH := max(72, (v.Height-sketch)/float32(n))
+		// Two or more strips share what the sketch leaves down to 72 px
+		// each (a laptop's drawing of 365 px holds the sketch and two),
+		// one keeps 90 px; below that they run on past the edge, to be
+		// panned to (an export scales them into its box).
+		floor := float32(90)
+		if n > 1 {
+			floor = 72
+		}
+		stripH := max(floor, (v.Height-sketch)/float32(n))
 		y := lay.sketchBottom
 		if nodal {
 			lay.nodal = &stripPlace{top: y, bottom: y + stripH}
