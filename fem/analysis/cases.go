@@ -262,24 +262,49 @@ func (c *Cases) finish(a *Analysis, opts check.Options) {
 		words[k] = c.patterned(a, k, per[k], opts)
 	}
 	a.Checks, c.Governing = nil, nil
-	for i, r := range per[0] {
-		best, by := r, 0
-		for k := 1; k < len(per); k++ {
-			if i >= len(per[k]) || per[k][i].Name != r.Name || !c.judges(r, k) {
+	for _, name := range checkNames(per) {
+		found, by, at := false, 0, 0
+		var best check.Result
+		for k := range per {
+			i := slices.IndexFunc(per[k], func(r check.Result) bool { return r.Name == name })
+			if i < 0 || !c.judges(per[k][i], k) {
 				continue
 			}
-			if !c.judges(r, by) || worse(per[k][i], best) {
-				best, by = per[k][i], k
+			if !found || worse(per[k][i], best) {
+				found, best, by, at = true, per[k][i], k, i
 			}
 		}
+		if !found {
+			continue // a design check that only combinations of another kind make
+		}
 		governing := c.Combinations[by].Name
-		if i < len(words[by]) && words[by][i] != "" {
-			governing += ", " + words[by][i]
+		if words[by][at] != "" {
+			governing += ", " + words[by][at]
 		}
 		best.Name += " (governing: " + governing + ")"
 		a.Checks = append(a.Checks, best)
 		c.Governing = append(c.Governing, by)
 	}
+}
+
+// checkNames are the names of every combination's checks, once each, in
+// the order the checks are made: a check that only a later combination
+// makes (buckling where only it compresses the member) follows the check
+// before it there.
+func checkNames(per [][]check.Result) []string {
+	var names []string
+	for _, results := range per {
+		at := 0 // where a new name goes
+		for _, r := range results {
+			if i := slices.Index(names, r.Name); i >= 0 {
+				at = i + 1
+				continue
+			}
+			names = slices.Insert(names, at, r.Name)
+			at++
+		}
+	}
+	return names
 }
 
 // patternSteps bounds how often patterned moves to a check's new place.

@@ -201,3 +201,39 @@ func TestOverhangBeyondASpringTakesPatternLoading(t *testing.T) {
 	}
 	t.Error("no deflection check of the right overhang")
 }
+
+// The envelope's checks are those of every combination, not only those
+// the first combination makes: a check made only where a later one
+// compresses the member (buckling) must be listed, from the strength
+// combination that gives it. A bar pinned at both ends (L = 6 m, E = 200
+// GPa, A = 0.01 m², α = 1.2e-5 /K) warmed by 20 K is compressed by
+// E·A·α·ΔT = 480 kN (restrained thermal expansion, Gere & Goodno,
+// Mechanics of Materials, thermal effects in statically indeterminate
+// bars), far beyond its Euler load π²EI/L² = 54.8 kN with I = 1e-6 m⁴
+// (Euler's column formula, pinned ends); cooled by 20 K it is in tension
+// and has no buckling check. The cooling combination comes first.
+func TestEnvelopeChecksTakeChecksOfLaterCombinations(t *testing.T) {
+	m := fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 6, Section: fem.Section{Area: 0.01, SecondMoment: 1e-6, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: 2e11, ThermalExpansion: 1.2e-5, Allowable: 2.5e8}}},
+		Supports: []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 6, Kind: fem.Pinned}},
+		Cases:    []fem.LoadCase{{Name: "cool", TemperatureChange: -20}, {Name: "warm", TemperatureChange: 20}},
+		Combinations: []fem.Combination{
+			{Name: "S cool", Kind: fem.Strength, Factors: []fem.CaseFactor{{Case: 0, Factor: 1}}},
+			{Name: "S warm", Kind: fem.Strength, Factors: []fem.CaseFactor{{Case: 1, Factor: 1}}},
+		},
+	}
+	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
+	if err != nil || a.Err != nil {
+		t.Fatalf("%v, %v", err, a.Err)
+	}
+	for _, r := range a.Checks {
+		if r.Code == check.CodeBuckling {
+			if math.Abs(r.Value-480e3) > 1e-9*480e3 || r.Status != check.Fail || !strings.Contains(r.Name, "governing: S warm") {
+				t.Errorf("%s: %s, %.9g N; want a failure at 480 kN governed by S warm", r.Name, r.Status, r.Value)
+			}
+			return
+		}
+	}
+	t.Error("no buckling check: the warm combination's compression is left out of the envelope's checks")
+}
