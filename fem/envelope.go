@@ -337,6 +337,9 @@ type envelopeWalk struct {
 	cuts       []float64
 	// patterned says which combinations switch span shares.
 	patterned []bool
+	// chord, when set, is taken off the deflection of the loads always
+	// on (Within).
+	chord func(x float64) float64
 }
 
 // envelopePoint is an extreme found so far: where (the element, or the
@@ -445,9 +448,14 @@ func (w *envelopeWalk) visit(e int, start, end float64) {
 		f := &w.fixed[c]
 		for i := range envelopeValues {
 			d := w.degree[i]
+			var off Polynomial // the chord, taken off the deflection
+			if w.chord != nil && i == int(QDeflection) {
+				off[0] = w.chord(x0)
+				off[1] = w.chord(x0+h) - off[0]
+			}
 			if d <= 1 && !w.patterned[c] {
 				// Linear: the element's own end values, start first.
-				v0, v1 := endValue(f.End(0), i), endValue(f.End(1), i)
+				v0, v1 := endValue(f.End(0), i)-off[0], endValue(f.End(1), i)-off[0]-off[1]
 				lo, hi := extremum{0, v0}, extremum{0, v0}
 				lo.least(1, v1)
 				hi.most(1, v1)
@@ -455,6 +463,7 @@ func (w *envelopeWalk) visit(e int, start, end float64) {
 				continue
 			}
 			a := polynomialOf(f, i)
+			a = combine(1, &a, -1, &off)
 			w.parts = w.parts[:0]
 			for j, f := range factors {
 				if f != 0 {
@@ -465,7 +474,7 @@ func (w *envelopeWalk) visit(e int, start, end float64) {
 			if len(w.parts) > 0 {
 				lo, hi = w.patternRange(&a, d)
 			} else {
-				lo, hi = rangeOn(&a, d, endValue(f.End(0), i), endValue(f.End(1), i))
+				lo, hi = rangeOn(&a, d, endValue(f.End(0), i)-off[0], endValue(f.End(1), i)-off[0]-off[1])
 			}
 			w.take(&w.lo[i], &w.hi[i], e, x0, h, c, lo, hi)
 		}
@@ -576,7 +585,54 @@ func (cs *CombinationSolutions) Envelope() *Envelope {
 	} else {
 		w.walkElements()
 	}
-	env := &Envelope{Exact: w.exact, Reactions: cs.reactionEnvelope(), Foundations: cs.foundationEnvelope()}
+	return &Envelope{Exact: w.exact, Quantities: w.quantities(), Reactions: cs.reactionEnvelope(), Foundations: cs.foundationEnvelope()}
+}
+
+// Within is the envelope of combination c alone over the stretch from
+// from to to (m, key points of the member, such as a segment's ends or a
+// span's supports): each quantity's largest and smallest value there,
+// with the span shares loaded for each (Governing.Loaded). chord, a line
+// through (from, chord[0]) and (to, chord[1]), is taken off the
+// deflection of the loads the combination always applies, so that a
+// deflection check measured from such a line (through the span's ends
+// where its supports settle) finds its worst arrangement: the shares'
+// deflections are taken as they are.
+func (cs *CombinationSolutions) Within(c int, from, to float64, chord [2]float64) []QuantityEnvelope {
+	one := &CombinationSolutions{
+		Loads: &CombinationLoads{Combinations: cs.Loads.Combinations[c : c+1], Spans: cs.Loads.Spans,
+			Fixed: cs.Loads.Fixed[c : c+1], Shares: cs.Loads.Shares, ShareLoads: cs.Loads.ShareLoads, Factors: cs.Loads.Factors[c : c+1]},
+		Fixed: cs.Fixed[c : c+1], Shares: cs.Shares}
+	if cs.FixedExact != nil {
+		one.FixedExact, one.SharesExact = cs.FixedExact[c:c+1], cs.SharesExact
+	}
+	w := newEnvelopeWalk(one)
+	w.chord = func(x float64) float64 { return chord[0] + (chord[1]-chord[0])*(x-from)/(to-from) }
+	tol := mergeTolerance * cs.Fixed[0].Model.Length()
+	inside := func(a, b float64) bool { return a >= from-tol && b <= to+tol }
+	if w.exact {
+		keys := one.exactKeys()
+		for i := 1; i < len(keys); i++ {
+			if inside(keys[i-1], keys[i]) {
+				w.visit(i-1, keys[i-1], keys[i])
+			}
+		}
+	} else {
+		for e, el := range cs.Fixed[0].Mesh.Elements {
+			if inside(el.Start, el.End) {
+				w.visit(e, el.Start, el.End)
+			}
+		}
+	}
+	out := w.quantities()
+	for i := range out {
+		out[i].Max.Combination, out[i].Min.Combination = c, c
+	}
+	return out
+}
+
+// quantities are the envelopes the walk found, in report order.
+func (w *envelopeWalk) quantities() []QuantityEnvelope {
+	var out []QuantityEnvelope
 	for _, q := range Quantities() {
 		var lo, hi Governing
 		if q == QCombinedStress {
@@ -590,9 +646,9 @@ func (cs *CombinationSolutions) Envelope() *Envelope {
 		} else {
 			lo, hi = w.governing(&w.lo[q], int(q), false), w.governing(&w.hi[q], int(q), true)
 		}
-		env.Quantities = append(env.Quantities, QuantityEnvelope{Quantity: q, Max: hi, Min: lo})
+		out = append(out, QuantityEnvelope{Quantity: q, Max: hi, Min: lo})
 	}
-	return env
+	return out
 }
 
 // walkElements visits every element of the finite element solutions;

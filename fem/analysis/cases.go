@@ -334,46 +334,49 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 		return words
 	}
 	exact := cs.FixedExact != nil
-	fields := func(fixed bool, j int, x float64) fem.Fields {
+	field := func(fixed bool, j int) fem.Field {
 		switch {
 		case exact && fixed:
-			return cs.FixedExact[k].At(x, fem.Right)
+			return cs.FixedExact[k]
 		case exact:
-			return cs.SharesExact[j].At(x, fem.Right)
+			return cs.SharesExact[j]
 		case fixed:
-			return cs.Fixed[k].At(x, fem.Right)
+			return cs.Fixed[k]
 		}
-		return cs.Shares[j].At(x, fem.Right)
+		return cs.Shares[j]
 	}
+	fields := func(fixed bool, j int, x float64) fem.Fields { return field(fixed, j).At(x, fem.Right) }
 	for i := range results {
 		r := results[i]
 		if r.Kind != check.Design || (r.Code != check.CodeStress && r.Code != check.CodeDeflection) {
 			continue
 		}
 		// value is the checked quantity of one load set at x: the
-		// deflection from the line through the span's ends (from its
-		// support on an overhang, as check measures it without
-		// settlements; through a spring support where it stands unloaded),
-		// or the stress in the bottom fibre (top when bottom is false).
+		// deflection from the line the check measures it from
+		// (check.DeflectionLine), or the stress in the bottom fibre (top
+		// when bottom is false).
 		from, to := r.Span[0], r.Span[1]
-		held0, spring0 := holdsAcross(&a.Model, from)
-		held1, spring1 := holdsAcross(&a.Model, to)
+		lines := map[int][2]float64{} // per load set: the fixed loads' at −1, share j's at j
+		line := func(fixed bool, j int) [2]float64 {
+			key := j
+			if fixed {
+				key = -1
+			}
+			l, ok := lines[key]
+			if !ok {
+				fe := cs.Shares[j]
+				if fixed {
+					fe = cs.Fixed[k]
+				}
+				l, _ = check.DeflectionLine(&a.Model, fe, field(fixed, j), from, to)
+				lines[key] = l
+			}
+			return l
+		}
 		value := func(fixed bool, j int, x float64, bottom bool) float64 {
 			if r.Code == check.CodeDeflection {
-				w0, w1 := fields(fixed, j, from).Deflection, fields(fixed, j, to).Deflection
-				if spring0 {
-					w0 = 0
-				}
-				if spring1 {
-					w1 = 0
-				}
-				switch {
-				case !held0:
-					w0 = w1
-				case !held1:
-					w1 = w0
-				}
-				return fields(fixed, j, x).Deflection - w0 - (w1-w0)*(x-from)/(to-from)
+				l := line(fixed, j)
+				return fields(fixed, j, x).Deflection - l[0] - (l[1]-l[0])*(x-from)/(to-from)
 			}
 			f := fields(fixed, j, x)
 			if bottom {
@@ -381,8 +384,23 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 			}
 			return f.AxialStress - f.BendingStress
 		}
-		on := all
 		best, bestOn := r, all
+		// Start from the arrangement that is worst anywhere on the
+		// check's stretch, in closed form: where every span loaded is
+		// worst, another arrangement may be far from the worst.
+		var chord [2]float64 // the line the deflection of the loads always on is measured from
+		if r.Code == check.CodeDeflection {
+			chord = line(true, 0)
+		}
+		on := c.worstArrangement(k, r, chord)
+		if !slices.Equal(on, all) {
+			if got, ok := c.checkArrangement(a, k, on, r.Name, opts); ok {
+				r = got
+				if worse(r, best) {
+					best, bestOn = r, on
+				}
+			}
+		}
 		for range patternSteps {
 			x := r.X
 			total := func(bottom bool) float64 {
@@ -421,17 +439,31 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 	return words
 }
 
-// holdsAcross says whether a support of m at x holds it across, rigidly
-// or by a spring, as the deflection checks' spans end at such supports,
-// and whether by a spring alone.
-func holdsAcross(m *fem.Model, x float64) (held, spring bool) {
-	tol := 1e-9 * m.Length()
-	for _, s := range m.Supports {
-		if math.Abs(s.X-x) <= tol && s.Holds(fem.Transverse) {
-			return true, !s.Kind.Restrains(fem.Transverse)
+// worstArrangement is the arrangement of the shares combination k takes
+// (indices into its Loads.Shares, in order) that gives the largest value
+// in size of check r's quantity on its stretch, in closed form: the
+// combined stress, or the deflection with chord (the line the check
+// measures it from, at the stretch's ends) taken off that of the loads
+// always on; the shares' deflections are taken as they are, which is how
+// the check measures them where the stretch ends at supports.
+func (c *Cases) worstArrangement(k int, r check.Result, chord [2]float64) []int {
+	cs := c.Solutions
+	q := fem.QCombinedStress
+	if r.Code == check.CodeDeflection {
+		q = fem.QDeflection
+	}
+	env := cs.Within(k, r.Span[0], r.Span[1], chord)
+	g := env[q].Max
+	if math.Abs(env[q].Min.Value) > math.Abs(g.Value) {
+		g = env[q].Min
+	}
+	var on []int
+	for j, sh := range cs.Loads.Shares {
+		if cs.Loads.Factors[k][j] != 0 && slices.Contains(g.Loaded, sh) {
+			on = append(on, j)
 		}
 	}
-	return false, false
+	return on
 }
 
 // checkArrangement solves combination k with the shares on loaded and its

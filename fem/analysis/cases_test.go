@@ -237,3 +237,123 @@ func TestEnvelopeChecksTakeChecksOfLaterCombinations(t *testing.T) {
 	}
 	t.Error("no buckling check: the warm combination's compression is left out of the envelope's checks")
 }
+
+// upliftModel is a beam continuous over two equal spans of 4 m (EI = 20
+// MN·m², c/I = 1000 /m³) under a permanent load of 10 kN/m down and a
+// wind uplift of 15 kN/m up placed by span, in one combination of kind
+// kind with factor 1 on both.
+func upliftModel(kind fem.CombinationKind) fem.Model {
+	uniform := func(w float64) []fem.DistributedLoad {
+		return []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: w}, {X: 8, Intensity: w}}}}
+	}
+	return fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 8, Section: fem.Section{Area: 0.01, SecondMoment: 1e-4, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: 2e11, Allowable: 1e9}}},
+		Supports:     []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}, {X: 8, Kind: fem.Roller}},
+		Cases:        []fem.LoadCase{{Name: "permanent", DistributedLoad: uniform(-10e3)}, {Name: "uplift", DistributedLoad: uniform(15e3), BySpan: true}},
+		Combinations: []fem.Combination{{Name: "C", Kind: kind, Factors: []fem.CaseFactor{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}}},
+	}
+}
+
+// The stress check of a combination with a case placed by span takes the
+// worst arrangement over the whole segment, not only the one worst where
+// every span loaded is worst. The upliftModel with every span loaded
+// (5 kN/m up) has its largest moment over the middle support, +wL²/8 =
+// 10 kN·m, which both spans' uplift raise; but with no uplift at all the
+// permanent load gives −wL²/8 = −20 kN·m there (two equal spans, uniform
+// load: AISC Manual, Beam Diagrams and Formulas, continuous beam of two
+// equal spans), the largest in size of every arrangement (the uplift on
+// one span lowers it to −20 + 15·4²/16 = −5 kN·m, and a span's sagging
+// moment is at most 17.6 kN·m), so 20 MPa at c/I = 1000 /m³.
+func TestStressCheckFindsTheWorstArrangementAnywhere(t *testing.T) {
+	a, err := Run(context.Background(), Request{Model: upliftModel(fem.Strength), Checks: check.DefaultOptions()})
+	if err != nil || a.Err != nil {
+		t.Fatalf("%v, %v", err, a.Err)
+	}
+	for _, r := range a.Checks {
+		if r.Code == check.CodeStress {
+			if math.Abs(math.Abs(r.Value)-20e6) > 1e-9*20e6 || math.Abs(r.X-4) > 1e-9 || !strings.Contains(r.Name, "uplift on no span") {
+				t.Errorf("%s: %.12g Pa at x = %g m; want 20 MPa at x = 4 m with the uplift on no span", r.Name, r.Value, r.X)
+			}
+			return
+		}
+	}
+	t.Error("no stress check")
+}
+
+// The deflection check takes the worst arrangement over the whole span
+// too. In the first span of the upliftModel the largest deflection comes
+// with the uplift on the second span alone: the first span carries 10
+// kN/m down and the moment over the middle support is −(w₁ + w₂)L²/16 =
+// −(10 − 5)·4²/16 = −5 kN·m (three-moment equation, two equal spans), so
+// the span deflects by w₁x(L³ − 2Lx² + x³)/(24EI) + M_B·x(L² − x²)/(6EIL)
+// down (a simple span under a uniform load and an end moment: AISC
+// Manual, Beam Diagrams and Formulas), largest where its slope vanishes.
+// Every span loaded gives a far smaller deflection, and the permanent
+// load alone (M_B = −20 kN·m) less too.
+func TestDeflectionCheckFindsTheWorstArrangementAnywhere(t *testing.T) {
+	const L, EI, w1, mB = 4.0, 2e7, 10e3, -5e3
+	down := func(x float64) float64 {
+		return w1*x*(L*L*L-2*L*x*x+x*x*x)/(24*EI) + mB*x*(L*L-x*x)/(6*EI*L)
+	}
+	// Largest by golden-section search of the smooth, single-peaked curve.
+	lo, hi := 0.0, L
+	for range 200 {
+		m1, m2 := hi-0.618033988749895*(hi-lo), lo+0.618033988749895*(hi-lo)
+		if down(m1) < down(m2) {
+			lo = m1
+		} else {
+			hi = m2
+		}
+	}
+	want := down((lo + hi) / 2)
+	a, err := Run(context.Background(), Request{Model: upliftModel(fem.Serviceability), Checks: check.DefaultOptions()})
+	if err != nil || a.Err != nil {
+		t.Fatalf("%v, %v", err, a.Err)
+	}
+	for _, r := range a.Checks {
+		if r.Code == check.CodeDeflection && r.Span == [2]float64{0, 4} {
+			if math.Abs(math.Abs(r.Value)-want) > 1e-9*want || !strings.Contains(r.Name, "uplift on span 2)") {
+				t.Errorf("%s: %.12g m; want %.12g m with the uplift on span 2", r.Name, r.Value, want)
+			}
+			return
+		}
+	}
+	t.Error("no deflection check of the first span")
+}
+
+// The worst arrangement for an overhang's deflection check is found with
+// the overhang's deflection measured as the check measures it: from the
+// line through its support at the tilt the settlements give the span
+// beside it, so that a support's heave, which turns the overhang as a
+// rigid body, counts for nothing. A beam pinned at 0, on a roller at 4 m
+// that heaves by 50 mm, with an overhang to 6 m (EI = 20 MN·m²), under an
+// imposed 10 kN/m placed by span: the tip deflects by w·a³(4L + 3a)/(24EI)
+// = 3.667 mm down with the overhang alone loaded, more than the w·L³·a/(24EI)
+// = 2.667 mm up with the span alone loaded or the 1 mm down with both
+// (AISC Manual, Beam Diagrams and Formulas, beam overhanging one support:
+// uniform load on the overhang, and between the supports).
+func TestOverhangCheckAfterAHeaveTakesTheWorstArrangement(t *testing.T) {
+	const want = 10e3 * 8 * (16 + 6) / (24 * 2e7)
+	m := fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 6, Section: fem.Section{Area: 0.01, SecondMoment: 1e-4, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: 2e11}}},
+		Supports: []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller, Settlement: [3]float64{0, 0.05, 0}}},
+		Cases: []fem.LoadCase{{Name: "heave", Settlements: true},
+			{Name: "imposed", DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 6, Intensity: -10e3}}}}, BySpan: true}},
+		Combinations: []fem.Combination{{Name: "C", Kind: fem.Serviceability, Factors: []fem.CaseFactor{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}}},
+	}
+	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
+	if err != nil || a.Err != nil {
+		t.Fatalf("%v, %v", err, a.Err)
+	}
+	for _, r := range a.Checks {
+		if r.Code == check.CodeDeflection && r.Span == [2]float64{4, 6} {
+			if math.Abs(math.Abs(r.Value)-want) > 1e-9*want || !strings.Contains(r.Name, "imposed on span 2)") {
+				t.Errorf("%s: %.12g m; want %.12g m with the imposed load on span 2", r.Name, r.Value, want)
+			}
+			return
+		}
+	}
+	t.Error("no deflection check of the overhang")
+}

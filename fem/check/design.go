@@ -263,3 +263,19 @@ func holdsRotation(m *fem.Model, x float64) bool {
 func (c *chordLine) at(x float64) float64 {
 	return c.w0 + c.dw*(x-c.a)/c.span
 }
+
+// DeflectionLine is the line from which the deflection check of the part
+// of m from a to b measures the deflection of src: its values at a and b.
+// An overhang's tilt is read off the finite element solution fe, as
+// NewProbe reads it. False when m has no such part.
+func DeflectionLine(m *fem.Model, fe, src fem.Field, a, b float64) ([2]float64, bool) {
+	parts := stretches(m, true)
+	tilts := settlementTilts(fe, m, parts)
+	for k, st := range parts {
+		if st.a == a && st.b == b {
+			c := newChord(src, st, tilts[k])
+			return [2]float64{c.at(a), c.at(b)}, true
+		}
+	}
+	return [2]float64{}, false
+}
