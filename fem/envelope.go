@@ -328,6 +328,11 @@ type envelopeWalk struct {
 	degrees           [polynomialQuantities]int
 	degree            [envelopeValues]int
 	lo, hi            [envelopeValues]envelopePoint
+	// size is, per value, the largest magnitude of its extremes so far:
+	// a later value ties with an extreme to round-off against it
+	// (BeyondField), so that of the places where a field is zero (the
+	// supports' deflection, an end's moment) the first is named.
+	size [envelopeValues]float64
 	// The polynomials of one element: the shares', and one combination's
 	// shares with its factors.
 	sharePoly [][envelopeValues]Polynomial
@@ -459,7 +464,7 @@ func (w *envelopeWalk) visit(e int, start, end float64) {
 				lo, hi := extremum{0, v0}, extremum{0, v0}
 				lo.least(1, v1)
 				hi.most(1, v1)
-				w.take(&w.lo[i], &w.hi[i], e, x0, h, c, lo, hi)
+				w.take(i, e, c, lo, hi)
 				continue
 			}
 			a := polynomialOf(f, i)
@@ -476,20 +481,24 @@ func (w *envelopeWalk) visit(e int, start, end float64) {
 			} else {
 				lo, hi = rangeOn(&a, d, endValue(f.End(0), i)-off[0], endValue(f.End(1), i)-off[0]-off[1])
 			}
-			w.take(&w.lo[i], &w.hi[i], e, x0, h, c, lo, hi)
+			w.take(i, e, c, lo, hi)
 		}
 	}
 }
 
-// take keeps lo and hi, found on element e (start x0, length h) for
-// combination c, where they pass the extremes so far; the first met wins a
-// tie.
-func (w *envelopeWalk) take(lo, hi *envelopePoint, e int, x0, h float64, c int, l, u extremum) {
-	if Beyond(lo.value, l.value) {
-		*lo = envelopePoint{e, x0, x0 + h, l.xi, x0 + l.xi*h, l.value, c}
+// take keeps l and u, the smallest and largest of value i found on
+// element e (or the interval of the exact solutions, w.fixed[0]) for
+// combination c, where they pass the extremes so far; the first met wins
+// a tie, to round-off against the field's size so far.
+func (w *envelopeWalk) take(i, e, c int, l, u extremum) {
+	v := &w.fixed[0]
+	lo, hi := &w.lo[i], &w.hi[i]
+	w.size[i] = max(w.size[i], math.Abs(l.value), math.Abs(u.value))
+	if BeyondField(lo.value, l.value, w.size[i]) {
+		*lo = envelopePoint{e, v.Start, v.X(1), l.xi, v.X(l.xi), l.value, c}
 	}
-	if Beyond(u.value, hi.value) {
-		*hi = envelopePoint{e, x0, x0 + h, u.xi, x0 + u.xi*h, u.value, c}
+	if BeyondField(u.value, hi.value, w.size[i]) {
+		*hi = envelopePoint{e, v.Start, v.X(1), u.xi, v.X(u.xi), u.value, c}
 	}
 }
 
@@ -554,16 +563,15 @@ func rangeBetween(p *Polynomial, d int, a, b float64) (lo, hi extremum) {
 // join takes later, a walk over elements after w's, into w: ties go to
 // w's, the earlier.
 func (w *envelopeWalk) join(later *envelopeWalk) {
-	keep := func(lo, hi *envelopePoint, l, u envelopePoint) {
-		if Beyond(lo.value, l.value) {
-			*lo = l
-		}
-		if Beyond(u.value, hi.value) {
-			*hi = u
-		}
-	}
 	for i := range w.lo {
-		keep(&w.lo[i], &w.hi[i], later.lo[i], later.hi[i])
+		size := max(w.size[i], later.size[i])
+		if BeyondField(w.lo[i].value, later.lo[i].value, size) {
+			w.lo[i] = later.lo[i]
+		}
+		if BeyondField(later.hi[i].value, w.hi[i].value, size) {
+			w.hi[i] = later.hi[i]
+		}
+		w.size[i] = size
 	}
 }
 
@@ -585,7 +593,28 @@ func (cs *CombinationSolutions) Envelope() *Envelope {
 	} else {
 		w.walkElements()
 	}
-	return &Envelope{Exact: w.exact, Quantities: w.quantities(), Reactions: cs.reactionEnvelope(), Foundations: cs.foundationEnvelope()}
+	qs := w.quantities()
+	zeroRoundOff(qs, cs.Fixed[0])
+	return &Envelope{Exact: w.exact, Quantities: qs, Reactions: cs.reactionEnvelope(), Foundations: cs.foundationEnvelope()}
+}
+
+// zeroRoundOff sets to zero the extremes of qs that are round-off against
+// their field's size (fieldScale, as the summary measures it, with s's
+// loads as the floor): a deflection of 3e-18 m beside one of 30 mm is 0.
+func zeroRoundOff(qs []QuantityEnvelope, s *Solution) {
+	var largest [quantityCount]float64
+	for _, q := range qs {
+		largest[q.Quantity] = max(math.Abs(q.Max.Value), math.Abs(q.Min.Value))
+	}
+	floor, L := forceFloor(s), s.Model.Length()
+	for i := range qs {
+		scale := fieldScale(qs[i].Quantity, &largest, L, floor)
+		for _, v := range [2]*float64{&qs[i].Max.Value, &qs[i].Min.Value} {
+			if math.Abs(*v) <= negligible*scale {
+				*v = 0
+			}
+		}
+	}
 }
 
 // Within is the envelope of combination c alone over the stretch from

@@ -426,3 +426,44 @@ func TestGoverningSpansLeaveRoundOffOut(t *testing.T) {
 		t.Errorf("smallest reaction at 10 m: %g N with %+v loaded, want 0 with none", lo.Value, lo.Loaded)
 	}
 }
+
+// A simply supported beam under two combinations of a uniform and a point
+// load, all acting down: its deflection is nowhere above zero and its
+// moment nowhere below it (statics), so the envelope's largest deflection
+// and smallest moment are 0, at the first support, x = 0 — not round-off
+// (3.5e-18 m, −2.9e-11 N·m) at the far support, named at x = L plus a unit
+// in the last place; and every extreme lies on the member.
+func TestEnvelopeZeroAtTheFirstPlace(t *testing.T) {
+	const L = 7.3
+	m := &Model{
+		Segments: []Segment{{Start: 0, End: L, Section: Section{Area: 0.01, SecondMoment: 1e-4, FibreDistance: 0.2},
+			Material: Material{Elastic: 2e11}}},
+		Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+		Cases: []LoadCase{
+			{Name: "a", DistributedLoad: []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -10e3}, {L, -10e3}}}}},
+			{Name: "b", PointLoads: []PointLoad{{X: 2.9, Transverse: -13e3}}},
+		},
+		Combinations: []Combination{
+			{Name: "c1", Kind: Strength, Factors: []CaseFactor{{Case: 0, Factor: 1.35}, {Case: 1, Factor: 1.5}}},
+			{Name: "c2", Kind: Serviceability, Factors: []CaseFactor{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}},
+		},
+	}
+	_, cs := solveCombinations(t, m)
+	for _, q := range cs.Envelope().Quantities {
+		for _, g := range [2]Governing{q.Max, q.Min} {
+			if g.X < 0 || g.X > L {
+				t.Errorf("%s: extreme %g at x = %.17g m, off the member", q.Quantity, g.Value, g.X)
+			}
+		}
+		switch q.Quantity {
+		case QDeflection:
+			if q.Max.Value != 0 || q.Max.X != 0 {
+				t.Errorf("largest deflection %g m at x = %g m, want 0 at x = 0", q.Max.Value, q.Max.X)
+			}
+		case QBendingMoment:
+			if q.Min.Value != 0 || q.Min.X != 0 {
+				t.Errorf("smallest moment %g N·m at x = %g m, want 0 at x = 0", q.Min.Value, q.Min.X)
+			}
+		}
+	}
+}
