@@ -119,11 +119,13 @@ type LoadedSpansJSON struct {
 
 // ReactionEnvelopeJS is one support's reaction envelope, per component.
 type ReactionEnvelopeJS struct {
-	Support int                      `json:"support"` // 1-based
-	Kind    string                   `json:"kind"`
-	X       float64                  `json:"x"`
-	Max     map[string]GoverningJSON `json:"max"` // "axial", "transverse", "moment"
-	Min     map[string]GoverningJSON `json:"min"`
+	Support int     `json:"support"` // 1-based
+	Kind    string  `json:"kind"`
+	X       float64 `json:"x"`
+	// Max and Min hold "axial", "transverse" and "moment": null for a
+	// motion the support leaves free, as the reactions give it.
+	Max map[string]*GoverningJSON `json:"max"`
+	Min map[string]*GoverningJSON `json:"min"`
 }
 
 // FoundationEnvelopeJS is one foundation's envelope: the resultant of the
@@ -178,10 +180,15 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 			Max: governingJSON(m, c, q.Max), Min: governingJSON(m, c, q.Min)})
 	}
 	for _, r := range env.Reactions {
-		rj := ReactionEnvelopeJS{Support: r.Support + 1, Kind: m.Supports[r.Support].Kind.String(), X: r.X,
-			Max: map[string]GoverningJSON{}, Min: map[string]GoverningJSON{}}
+		sup := m.Supports[r.Support]
+		rj := ReactionEnvelopeJS{Support: r.Support + 1, Kind: sup.Kind.String(), X: r.X,
+			Max: map[string]*GoverningJSON{}, Min: map[string]*GoverningJSON{}}
 		for d, name := range componentNames {
-			rj.Max[name], rj.Min[name] = governingJSON(m, c, r.Max[d]), governingJSON(m, c, r.Min[d])
+			rj.Max[name], rj.Min[name] = nil, nil
+			if sup.Holds(fem.Dof(d)) {
+				hi, lo := governingJSON(m, c, r.Max[d]), governingJSON(m, c, r.Min[d])
+				rj.Max[name], rj.Min[name] = &hi, &lo
+			}
 		}
 		out.Envelope.Reactions = append(out.Envelope.Reactions, rj)
 	}
@@ -385,11 +392,11 @@ func (r *CasesJSON) addTrainExtremes(m *fem.Model, trains []TrainResult) {
 						continue
 					}
 					x := m.Supports[re.Support].X
-					if g, ok := env.Max[name]; ok && re.Max > g.Value {
-						env.Max[name] = governing(TrainExtreme{Value: re.Max, X: x, Front: re.MaxAt.Front, Direction: re.MaxAt.Direction.String()})
+					if g := env.Max[name]; g != nil && re.Max > g.Value {
+						*g = governing(TrainExtreme{Value: re.Max, X: x, Front: re.MaxAt.Front, Direction: re.MaxAt.Direction.String()})
 					}
-					if g, ok := env.Min[name]; ok && re.Min < g.Value {
-						env.Min[name] = governing(TrainExtreme{Value: re.Min, X: x, Front: re.MinAt.Front, Direction: re.MinAt.Direction.String()})
+					if g := env.Min[name]; g != nil && re.Min < g.Value {
+						*g = governing(TrainExtreme{Value: re.Min, X: x, Front: re.MinAt.Front, Direction: re.MinAt.Direction.String()})
 					}
 				}
 			}
@@ -465,10 +472,10 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 				k = units.Moment
 			}
 			hi, lo := re.Max[name], re.Min[name]
-			if hi.Value == 0 && lo.Value == 0 {
+			if hi == nil || lo == nil || hi.Value == 0 && lo.Value == 0 {
 				continue
 			}
-			fmt.Fprintf(tw, "  %d %s\t%s\t%s\t%s\t%s\t%s\t%s\n", re.Support, re.Kind, pos(re.X), name, u.Format(k, hi.Value), governingWords(hi, u), u.Format(k, lo.Value), governingWords(lo, u))
+			fmt.Fprintf(tw, "  %d %s\t%s\t%s\t%s\t%s\t%s\t%s\n", re.Support, re.Kind, pos(re.X), name, u.Format(k, hi.Value), governingWords(*hi, u), u.Format(k, lo.Value), governingWords(*lo, u))
 		}
 	}
 	tw.Flush()
@@ -572,21 +579,21 @@ func sheetCaseLines(src Source) []string {
 	}
 	// transverse is the range of one transverse envelope, numbered n;
 	// "" where it is zero throughout.
-	transverse := func(n int, max, min map[string]GoverningJSON) string {
-		hi, lo := max["transverse"], min["transverse"]
-		if hi.Value == 0 && lo.Value == 0 {
+	transverse := func(n int, hi, lo *GoverningJSON) string {
+		if hi == nil || lo == nil || hi.Value == 0 && lo.Value == 0 {
 			return ""
 		}
-		return fmt.Sprintf("%d: %s (%s) to %s (%s)", n, u.Format(units.Force, lo.Value), governingWords(lo, u), u.Format(units.Force, hi.Value), governingWords(hi, u))
+		return fmt.Sprintf("%d: %s (%s) to %s (%s)", n, u.Format(units.Force, lo.Value), governingWords(*lo, u), u.Format(units.Force, hi.Value), governingWords(*hi, u))
 	}
 	var reactions, ground []string
 	for _, re := range r.Envelope.Reactions {
-		if t := transverse(re.Support, re.Max, re.Min); t != "" {
+		if t := transverse(re.Support, re.Max["transverse"], re.Min["transverse"]); t != "" {
 			reactions = append(reactions, t)
 		}
 	}
 	for _, f := range r.Envelope.Foundations {
-		if t := transverse(f.Foundation, f.Max, f.Min); t != "" {
+		hi, lo := f.Max["transverse"], f.Min["transverse"]
+		if t := transverse(f.Foundation, &hi, &lo); t != "" {
 			ground = append(ground, t)
 		}
 	}
