@@ -389,10 +389,13 @@ func (v *Interval) fibreRange(sign float64) (lo, hi extremum) {
 	if v.closed.stretch != nil {
 		return v.closedRangeOf(of)
 	}
-	p := combine(1, &v.poly[QAxialStress], sign, &v.poly[QBendingStress])
 	d := max(v.degree[QAxialStress], v.degree[QBendingStress])
 	a, b := of(v.End(0)), of(v.End(1))
-	if d <= 1 || !turnsInside(&p, d) {
+	if d <= 1 { // linear: the ends (a finite element's stresses)
+		return endsRange(a, b)
+	}
+	p := combine(1, &v.poly[QAxialStress], sign, &v.poly[QBendingStress])
+	if !turnsInside(&p, d) {
 		return endsRange(a, b)
 	}
 	return rangeOn(&p, d, a, b)
