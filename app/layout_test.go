@@ -5,6 +5,7 @@ import (
 	"testing"
 
 	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/test"
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
@@ -117,4 +118,57 @@ func TestCaseButtonsHaveWords(t *testing.T) {
 	if n < 3 {
 		t.Errorf("the load cases have %d buttons, want add, rename and delete", n)
 	}
+}
+
+// Tab takes the focus through the window as it reads: the tool strip on
+// the left first, then the column of the drawing (the bar above it, the
+// drawing, the bars below), then the panes on the right, each column from
+// top to bottom.
+func TestTabFollowsTheScreen(t *testing.T) {
+	w, _ := openTestdata(t, "two_span_cases.json", laptop)
+	c := w.win.Canvas()
+	drv := fyne.CurrentApp().Driver()
+	stripRight := drv.AbsolutePositionForObject(w.ui.strip).X + w.ui.strip.Size().Width
+	drawRight := drv.AbsolutePositionForObject(w.draw).X + w.draw.Size().Width
+	column := func(p fyne.Position) int {
+		switch {
+		case p.X < stripRight:
+			return 0
+		case p.X < drawRight:
+			return 1
+		}
+		return 2
+	}
+	// A widget scrolled out of its pane counts as at the pane's foot.
+	foot := map[fyne.CanvasObject]float32{}
+	for _, o := range test.LaidOutObjects(w.win.Content()) {
+		if s, ok := o.(*container.Scroll); ok {
+			for _, in := range test.LaidOutObjects(s.Content) {
+				foot[in] = drv.AbsolutePositionForObject(s).Y + s.Size().Height
+			}
+		}
+	}
+	c.Unfocus()
+	c.FocusNext()
+	first := c.Focused()
+	var last fyne.Position
+	var lastName string
+	for i := 0; i < 200; i++ {
+		o := c.Focused().(fyne.CanvasObject)
+		p := drv.AbsolutePositionForObject(o)
+		if y, ok := foot[o]; ok {
+			p.Y = min(p.Y, y)
+		}
+		if i > 0 {
+			if column(p) < column(last) || column(p) == column(last) && p.Y < last.Y-0.5 {
+				t.Errorf("Tab went from %s at %v (column %d) back to %s at %v (column %d)", lastName, last, column(last), nameOf(o), p, column(p))
+			}
+		}
+		last, lastName = p, nameOf(o)
+		c.FocusNext()
+		if c.Focused() == first {
+			return
+		}
+	}
+	t.Fatal("Tab never came back to the first widget")
 }

@@ -8,6 +8,7 @@ import (
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/layout"
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
@@ -105,7 +106,10 @@ func (w *Window) build() {
 	side.SetOffset(0.38)
 
 	below := newFlow(append(c.layerBar(), c.meshBar()...)...)
-	center := container.NewBorder(c.actionBar(), below, nil, nil, w.draw)
+	bar := c.actionBar()
+	// The objects in the order they are on the screen, which is the
+	// order Tab takes (a border container puts its middle first).
+	center := container.New(layout.NewBorderLayout(bar, below, nil, nil), bar, w.draw, below)
 	warning := widget.NewLabelWithStyle(caution, fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
 	warning.Importance = widget.WarningImportance
 	warning.Wrapping = fyne.TextWrapWord
@@ -114,7 +118,7 @@ func (w *Window) build() {
 	split := container.NewHSplit(center, side)
 	split.SetOffset(0.66)
 	c.strip = container.NewVScroll(compact(strip))
-	content := container.NewBorder(nil, bottom, c.strip, nil, split)
+	content := container.New(layout.NewBorderLayout(nil, bottom, c.strip, nil), c.strip, split, bottom)
 	w.win.SetContent(content)
 	// Lay out at once: wrapped labels measure their height at the width
 	// they are given, and a window shown before that would take the
