@@ -2,13 +2,13 @@ package app
 
 import (
 	"fmt"
+	"reflect"
 	"strconv"
 	"strings"
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/dialog"
-	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
 	"stave/fem"
@@ -138,7 +138,10 @@ type casesPanel struct {
 	caseSelect, showSelect                    *widget.Select
 	selfWeight, settlements, gradient, bySpan *widget.Check
 	showing                                   []analysis.Show // the choices of showSelect
-	updating                                  bool            // set while the panel sets its own widgets
+	// bar holds the choices above the drawing: laid out again when their
+	// options change, as each is as wide as its widest option.
+	bar      *fyne.Container
+	updating bool // set while the panel sets its own widgets
 }
 
 // newCasesPanel builds the panel; refresh fills it.
@@ -167,13 +170,12 @@ func newCasesPanel(w *Window) *casesPanel {
 	c.settlements = flag("settlements", func(lc *fem.LoadCase, on bool) { lc.Settlements = on })
 	c.gradient = flag("ΔT through depth", func(lc *fem.LoadCase, on bool) { lc.ThermalGradient = on })
 	c.bySpan = flag("placed by span", func(lc *fem.LoadCase, on bool) { lc.BySpan = on })
+	// The choice of the case edited and the combinations are above the
+	// drawing (actionBar), beside what it shows.
 	c.box = container.NewVBox(heading("Load cases"),
-		widget.NewLabel("Editing"), c.caseSelect,
-		// Icons keep the tool strip narrow: add, rename, delete.
-		container.NewGridWithColumns(3, widget.NewButtonWithIcon("", theme.ContentAddIcon(), w.addCase),
-			widget.NewButtonWithIcon("", theme.DocumentCreateIcon(), w.renameCase), widget.NewButtonWithIcon("", theme.DeleteIcon(), w.deleteCase)),
-		c.selfWeight, c.settlements, c.gradient, c.bySpan,
-		widget.NewButton("Combinations…", w.showCombinations))
+		container.NewGridWithColumns(2, widget.NewButton("Add…", w.addCase),
+			widget.NewButton("Rename…", w.renameCase), widget.NewButton("Delete", w.deleteCase)),
+		c.selfWeight, c.settlements, c.gradient, c.bySpan)
 	return c
 }
 
@@ -187,6 +189,7 @@ func (c *casesPanel) refresh() {
 	for k := range names {
 		names[k] = m.LoadSetName(k)
 	}
+	before := [][]string{c.caseSelect.Options, c.showSelect.Options}
 	c.caseSelect.Options = names
 	c.caseSelect.SetSelectedIndex(min(w.editCase, len(names)-1))
 	hasCases := len(m.Cases) > 0
@@ -229,6 +232,9 @@ func (c *casesPanel) refresh() {
 		}
 	}
 	c.showSelect.SetSelectedIndex(sel)
+	if c.bar != nil && !reflect.DeepEqual(before, [][]string{c.caseSelect.Options, c.showSelect.Options}) {
+		c.bar.Refresh()
+	}
 }
 
 // changeCases applies change to the canonical model as one undoable edit,

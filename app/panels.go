@@ -8,6 +8,7 @@ import (
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/layout"
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
@@ -43,6 +44,7 @@ var supportKinds = []fem.SupportKind{fem.Fixed, fem.Pinned, fem.Roller, fem.Axia
 type controls struct {
 	w            *Window
 	toolButtons  map[tool]*widget.Button
+	strip        *container.Scroll // the tools and the load cases, left of the drawing
 	kindSelect   *widget.Select
 	cases        *casesPanel
 	properties   *fyne.Container // the properties pane, rebuilt for each kind of item
@@ -104,7 +106,10 @@ func (w *Window) build() {
 	side.SetOffset(0.38)
 
 	below := newFlow(append(c.layerBar(), c.meshBar()...)...)
-	center := container.NewBorder(c.actionBar(), below, nil, nil, w.draw)
+	bar := c.actionBar()
+	// The objects in the order they are on the screen, which is the
+	// order Tab takes (a border container puts its middle first).
+	center := container.New(layout.NewBorderLayout(bar, below, nil, nil), bar, w.draw, below)
 	warning := widget.NewLabelWithStyle(caution, fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
 	warning.Importance = widget.WarningImportance
 	warning.Wrapping = fyne.TextWrapWord
@@ -112,7 +117,8 @@ func (w *Window) build() {
 
 	split := container.NewHSplit(center, side)
 	split.SetOffset(0.66)
-	content := container.NewBorder(nil, bottom, container.NewVScroll(strip), nil, split)
+	c.strip = container.NewVScroll(compact(strip))
+	content := container.New(layout.NewBorderLayout(nil, bottom, c.strip, nil), c.strip, split, bottom)
 	w.win.SetContent(content)
 	// Lay out at once: wrapped labels measure their height at the width
 	// they are given, and a window shown before that would take the
@@ -138,7 +144,7 @@ func (c *controls) actionBar() fyne.CanvasObject {
 		}
 	})
 	c.unitSelect.SetSelected(w.units.Name + " units")
-	return newFlow(
+	c.cases.bar = newFlow(
 		widget.NewButtonWithIcon("Add…", theme.ContentAddIcon(), w.showAddForm),
 		widget.NewButtonWithIcon("Undo", theme.ContentUndoIcon(), w.undo),
 		widget.NewButtonWithIcon("Redo", theme.ContentRedoIcon(), w.redo),
@@ -146,7 +152,11 @@ func (c *controls) actionBar() fyne.CanvasObject {
 		widget.NewButtonWithIcon("Fit view", theme.ZoomFitIcon(), w.draw.fit),
 		container.NewBorder(nil, nil, widget.NewLabel("Snap"), nil, fixedWidth(110, c.grid)),
 		c.unitSelect,
-		container.NewBorder(nil, nil, widget.NewLabel("Show"), nil, c.cases.showSelect))
+		// The choices of the load cases: shown, edited, combined.
+		container.NewHBox(widget.NewLabel("Show"), fitOptions(c.cases.showSelect, 260)),
+		container.NewHBox(widget.NewLabel("Editing"), fitOptions(c.cases.caseSelect, 200)),
+		widget.NewButton("Combinations…", w.showCombinations))
+	return c.cases.bar
 }
 
 // barOrder is one choice of the bar element, named as fem names its formulation.

@@ -96,7 +96,7 @@ func (w *Window) showMovingLoads() {
 	} else {
 		mw.modelChanged()
 	}
-	mw.win.Resize(fyne.NewSize(1280, 760))
+	mw.win.Resize(fyne.NewSize(startWidth, startHeight))
 	mw.win.Show()
 }
 
@@ -171,7 +171,9 @@ func (mw *movingWindow) build() {
 	}
 	top := newFlow(widget.NewLabel("Field"), wide(mw.quantity, 190), widget.NewLabel("Influence line of"), wide(mw.targetSelect, 380),
 		widget.NewButton("Worst position", mw.toWorst))
-	center := container.NewBorder(top, container.NewVBox(mw.readout, widget.NewLabel("Drag the train along the member; the influence line follows the mouse, a click pins it to a point (click again to let go).")), nil, nil, mw.pic)
+	hint := widget.NewLabel("Drag the train along the member (or ← and → after a click or Tab on the picture); the influence line follows the mouse, a click pins it to a point (click again to let go).")
+	hint.Wrapping = fyne.TextWrapWord
+	center := container.NewBorder(top, container.NewVBox(mw.readout, hint), nil, nil, mw.pic)
 	mw.formScroll = container.NewVScroll(left)
 	split := container.NewHSplit(mw.formScroll, center)
 	split.SetOffset(0.27)
@@ -600,6 +602,7 @@ type movingPicture struct {
 }
 
 var (
+	_ fyne.Focusable    = (*movingPicture)(nil)
 	_ fyne.Draggable    = (*movingPicture)(nil)
 	_ fyne.Tappable     = (*movingPicture)(nil)
 	_ desktop.Hoverable = (*movingPicture)(nil)
@@ -634,8 +637,36 @@ func (p *movingPicture) Dragged(ev *fyne.DragEvent) {
 
 func (p *movingPicture) DragEnd() { p.dragStart = nil }
 
+// FocusGained is part of fyne.Focusable: the picture takes the focus
+// by Tab or a click, and then ← and → move the train.
+func (p *movingPicture) FocusGained() {}
+
+// FocusLost is part of fyne.Focusable.
+func (p *movingPicture) FocusLost() {}
+
+// TypedRune is part of fyne.Focusable.
+func (p *movingPicture) TypedRune(rune) {}
+
+// TypedKey is part of fyne.Focusable: ← and → move the train one of its
+// positions back or on, as a drag does by the mouse.
+func (p *movingPicture) TypedKey(ev *fyne.KeyEvent) {
+	mw := p.mw
+	if mw.env == nil {
+		return
+	}
+	switch ev.Name {
+	case fyne.KeyLeft:
+		mw.dragTrain(mw.at, -mw.env.Step)
+	case fyne.KeyRight:
+		mw.dragTrain(mw.at, mw.env.Step)
+	}
+}
+
 func (p *movingPicture) Tapped(ev *fyne.PointEvent) {
 	mw := p.mw
+	if c := fyne.CurrentApp().Driver().CanvasForObject(p); c != nil {
+		c.Focus(p)
+	}
 	if mw.pinned {
 		mw.pinned = false
 	} else {

@@ -1,0 +1,174 @@
+package app
+
+import (
+	"path/filepath"
+	"testing"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/test"
+	"fyne.io/fyne/v2/theme"
+	"fyne.io/fyne/v2/widget"
+
+	"stave/storage"
+)
+
+// laptop is the content of a window filling a screen of 1280 × 720 pixels
+// under its menu bar (some 30 px in the screenshots of the window).
+var laptop = fyne.NewSize(1280, 690)
+
+// openTestdata opens a file of testdata in a window of size.
+func openTestdata(t *testing.T, name string, size fyne.Size) (*Window, *uiQueue) {
+	t.Helper()
+	p, err := storage.Load(filepath.Join("..", "testdata", name))
+	if err != nil {
+		t.Fatal(err)
+	}
+	w, q := newTestWindow(t, p)
+	w.win.Resize(size)
+	return w, q
+}
+
+// On a laptop's screen every control of the tool strip is in sight
+// without scrolling: the tools, the support kind and the load cases with
+// their combinations.
+func TestStripFitsALaptopScreen(t *testing.T) {
+	for _, size := range []fyne.Size{laptop, fyne.NewSize(1600, 970)} {
+		w, _ := openTestdata(t, "two_span_cases.json", size)
+		strip := w.ui.strip
+		top := fyne.CurrentApp().Driver().AbsolutePositionForObject(strip).Y
+		for _, o := range test.LaidOutObjects(strip.Content) {
+			if _, ok := o.(fyne.Focusable); !ok || !o.Visible() {
+				continue
+			}
+			if bottom := fyne.CurrentApp().Driver().AbsolutePositionForObject(o).Y + o.Size().Height - top; bottom > strip.Size().Height+0.5 {
+				t.Errorf("at %v the strip shows %.0f px, and %s ends at %.0f px, out of sight", size, strip.Size().Height, nameOf(o), bottom)
+			}
+		}
+	}
+}
+
+// nameOf is the text of a widget, to name it in a failure.
+func nameOf(o fyne.CanvasObject) string {
+	switch v := o.(type) {
+	case *widget.Button:
+		return "button " + quoteOr(v.Text, "(icon only)")
+	case *widget.Check:
+		return "switch " + quoteOr(v.Text, "")
+	case *widget.Select:
+		return "choice " + quoteOr(v.Selected, "")
+	case *widget.Entry:
+		return "field " + quoteOr(v.Text, "")
+	}
+	return "a " + fyneTypeName(o)
+}
+
+func quoteOr(s, empty string) string {
+	if s == "" {
+		return empty
+	}
+	return "“" + s + "”"
+}
+
+func fyneTypeName(o fyne.CanvasObject) string {
+	switch o.(type) {
+	case *drawing:
+		return "drawing"
+	case *widget.Table:
+		return "table"
+	case *widget.List:
+		return "list"
+	}
+	return "widget"
+}
+
+// The choices above the drawing are wide enough to show the longest of
+// their options whole: the Show choice of a model without cases read
+// "the loads (…".
+func TestChoicesShowTheirWholeText(t *testing.T) {
+	for _, name := range []string{"demo.json", "two_span_cases.json"} {
+		w, _ := openTestdata(t, name, laptop)
+		for _, s := range []*widget.Select{w.ui.cases.showSelect, w.ui.cases.caseSelect} {
+			for _, o := range s.Options {
+				// The room for the text: the select's width less its
+				// icon, the padding by the icon, and the label's inset
+				// each side (fyne's selectRenderer.Layout, v2.7).
+				room := s.Size().Width - theme.IconInlineSize() - theme.InnerPadding() - 3*theme.Padding()
+				if need := fyne.MeasureText(o, theme.TextSize(), fyne.TextStyle{}).Width; need > room+0.5 {
+					t.Errorf("%s: the choice of %q has %.0f px for its text, %q needs %.0f", name, s.Selected, room, o, need)
+				}
+			}
+		}
+	}
+}
+
+// Every button of the load cases says what it does in words, for the eye
+// and for a screen reader.
+func TestCaseButtonsHaveWords(t *testing.T) {
+	w, _ := openTestdata(t, "two_span_cases.json", laptop)
+	n := 0
+	for _, o := range test.LaidOutObjects(w.ui.cases.box) {
+		if b, ok := o.(*widget.Button); ok {
+			n++
+			if b.Text == "" {
+				t.Errorf("a button of the load cases shows only an icon")
+			}
+		}
+	}
+	if n < 3 {
+		t.Errorf("the load cases have %d buttons, want add, rename and delete", n)
+	}
+}
+
+// Tab takes the focus through the window as it reads: the tool strip on
+// the left first, then the column of the drawing (the bar above it, the
+// drawing, the bars below), then the panes on the right, each column from
+// top to bottom.
+func TestTabFollowsTheScreen(t *testing.T) {
+	w, _ := openTestdata(t, "two_span_cases.json", laptop)
+	c := w.win.Canvas()
+	drv := fyne.CurrentApp().Driver()
+	stripRight := drv.AbsolutePositionForObject(w.ui.strip).X + w.ui.strip.Size().Width
+	drawRight := drv.AbsolutePositionForObject(w.draw).X + w.draw.Size().Width
+	column := func(p fyne.Position) int {
+		switch {
+		case p.X < stripRight:
+			return 0
+		case p.X < drawRight:
+			return 1
+		}
+		return 2
+	}
+	// A widget scrolled out of its pane counts as at the pane's foot.
+	foot := map[fyne.CanvasObject]float32{}
+	for _, o := range test.LaidOutObjects(w.win.Content()) {
+		if s, ok := o.(*container.Scroll); ok {
+			for _, in := range test.LaidOutObjects(s.Content) {
+				foot[in] = drv.AbsolutePositionForObject(s).Y + s.Size().Height
+			}
+		}
+	}
+	c.Unfocus()
+	c.FocusNext()
+	first := c.Focused()
+	var last fyne.Position
+	var lastName string
+	for i := 0; i < 200; i++ {
+		o := c.Focused().(fyne.CanvasObject)
+		p := drv.AbsolutePositionForObject(o)
+		if y, ok := foot[o]; ok {
+			p.Y = min(p.Y, y)
+		}
+		if i > 0 {
+			if column(p) < column(last) || column(p) == column(last) && p.Y < last.Y-0.5 {
+				t.Errorf("Tab went from %s at %v (column %d) back to %s at %v (column %d)", lastName, last, column(last), nameOf(o), p, column(p))
+			}
+		}
+		last, lastName = p, nameOf(o)
+		c.FocusNext()
+		if c.Focused() == first {
+			return
+		}
+	}
+	t.Fatal("Tab never came back to the first widget")
+}
