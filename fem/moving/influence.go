@@ -154,6 +154,7 @@ func (in *Influence) sweepsFor(t Target) (*sweeps, error) {
 type Line struct {
 	Target Target
 	lines
+	jump float64 // see Jump
 }
 
 // Line returns the influence line of t.
@@ -167,10 +168,36 @@ func (in *Influence) Line(t Target) (*Line, error) {
 	if err != nil {
 		return nil, err
 	}
-	ln := &Line{Target: t}
+	ln := &Line{Target: t, jump: in.jump(t)}
 	ln.fill(s, []reader{r})
 	return ln, nil
 }
+
+// jump is how much the line of t rises as the unit load crosses t's own
+// point towards +x (see Line.Jump).
+func (in *Influence) jump(t Target) float64 {
+	if t.Reaction {
+		return 0
+	}
+	switch t.Quantity {
+	case fem.QShearForce, fem.QAxialForce:
+		return 1
+	case fem.QAxialStress:
+		return 1 / in.model.Segments[segmentAt(in.model, t.X, t.Side)].Section.Area
+	}
+	return 0
+}
+
+// Jump is how much the line rises, per newton, as the unit load crosses
+// the target's own point towards +x: 1 for the shear force and the axial
+// force (the load passes from the part behind the cut to the part ahead),
+// one over the area on the side read for the axial stress, 0 for the
+// quantities that do not jump there and for reactions. A load standing on
+// the point itself lies on the far side of the cut from the side read, so
+// its value is the line's limit on that side less the jump (read on the
+// right) or plus it (read on the left); at an end of the member, where the
+// line has no piece beyond the point, only the jump gives it.
+func (l *Line) Jump() float64 { return l.jump }
 
 // reader is a linear quantity read at one point, in the coefficients of the
 // sweeps: for a load after the point, the row that reads the left sweep's
