@@ -87,6 +87,7 @@ func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
 		}
 		return v
 	}
+	out.Largest.Value, out.Smallest.Value = clean(out.Largest.Value), clean(out.Smallest.Value)
 	for i, s := range positions {
 		sample := InfluenceSample{S: s, Exact: clean(sampleAt(line, r.Target, s, L))}
 		if fe != nil {

@@ -526,17 +526,15 @@ func (l *Line) Polylines(n int) [][]Point {
 
 // Extremes are the smallest and the largest value of the line and where
 // they are, from the ends of its pieces and the roots of their derivatives:
-// where a single load does most.
+// where a single load does most. Of values that tie to round-off against
+// the line's size (fem.BeyondField) the first along the member is kept, so
+// that a moment of 1e-16 beside a support's 0 names no place of its own.
 func (l *Line) Extremes() (lo, hi Point) {
-	first := true
+	var cands []Point
+	scale := 0.0
 	take := func(s, v float64) {
-		if first || v < lo.Value {
-			lo = Point{s, v}
-		}
-		if first || v > hi.Value {
-			hi = Point{s, v}
-		}
-		first = false
+		cands = append(cands, Point{s, v})
+		scale = max(scale, math.Abs(v))
 	}
 	for p := range l.pieces() {
 		a, b := l.bounds[p], l.bounds[p+1]
@@ -549,6 +547,15 @@ func (l *Line) Extremes() (lo, hi Point) {
 			take(a+u*l.length, c.at(u))
 		}
 		take(b, c.at(h))
+	}
+	lo, hi = cands[0], cands[0]
+	for _, c := range cands[1:] {
+		if fem.BeyondField(lo.Value, c.Value, scale) {
+			lo = c
+		}
+		if fem.BeyondField(c.Value, hi.Value, scale) {
+			hi = c
+		}
 	}
 	return lo, hi
 }
