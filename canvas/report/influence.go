@@ -275,14 +275,7 @@ func trainExtremeText(e TrainExtreme, k units.Kind, u units.System, at bool, siz
 
 // describeTarget names the target with its position in display units.
 func describeTarget(t moving.Target, u units.System) string {
-	if t.Reaction {
-		return fmt.Sprintf("%s reaction of support %d", t.Motion, t.Support+1)
-	}
-	side := ""
-	if t.Side == fem.Left {
-		side = ", just left of it"
-	}
-	return fmt.Sprintf("%s at x = %s%s", t.Quantity, u.Format(units.Position, t.X), side)
+	return t.Describe(u.Format(units.Position, t.X))
 }
 
 // describeTrain says what a train is, in one line.

@@ -39,6 +39,20 @@ func (t Target) String() string {
 	return fmt.Sprintf("%s at x = %s m%s", t.Quantity, trim(t.X), side)
 }
 
+// Describe names the target in words for a page, its position written as
+// x (with its unit): "bending moment at x = 2.5 m", ", just left of it"
+// where it is read on the left, or the reaction of a support.
+func (t Target) Describe(x string) string {
+	if t.Reaction {
+		return fmt.Sprintf("%s reaction of support %d", t.Motion, t.Support+1)
+	}
+	side := ""
+	if t.Side == fem.Left {
+		side = ", just left of it"
+	}
+	return fmt.Sprintf("%s at x = %s%s", t.Quantity, x, side)
+}
+
 // inner is t read on the member: at either end only one side of the point
 // lies on it (the right of x = 0, the left of x = L), and that is the side
 // read whatever side t names. Read from outside, the shear force at an end
