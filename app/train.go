@@ -571,10 +571,7 @@ func (mw *movingWindow) showReadout() {
 		}
 	}
 	if mw.line != nil && len(mw.worst) == 2 {
-		what := fmt.Sprintf("%s reaction of support %d", mw.line.Target.Motion, mw.line.Target.Support+1)
-		if !mw.line.Target.Reaction {
-			what = fmt.Sprintf("%s at x = %s", mw.line.Target.Quantity, u.Format(units.Position, mw.line.Target.X))
-		}
+		what := mw.line.Target.Describe(u.Format(units.Position, mw.line.Target.X))
 		parts = append(parts, fmt.Sprintf("the train's extremes of the %s: largest %s, smallest %s", what,
 			u.Format(targetUnit(mw.line.Target), mw.worst[0].Value), u.Format(targetUnit(mw.line.Target), mw.worst[1].Value)))
 	}

@@ -235,10 +235,7 @@ func (b *builder) influenceBand(in MovingInput, bands *MovingBands) {
 	mid, per := fitRange(min(lo.Value, 0), max(hi.Value, 0), top, bottom)
 	bands.InfluenceBaseline, bands.InfluencePerPixel = mid, per
 	toY := func(v float64) float32 { return mid - float32(v/per) }
-	what := fmt.Sprintf("%s reaction of support %d", l.Target.Motion, l.Target.Support+1)
-	if !l.Target.Reaction {
-		what = fmt.Sprintf("%s at x = %s", l.Target.Quantity, b.format(units.Position, l.Target.X))
-	}
+	what := l.Target.Describe(b.format(units.Position, l.Target.X))
 	b.text(fmt.Sprintf("influence line of the %s, for %s; positive up", what, l.Target.Unit()), 8, bands.InfluenceTop, labelSize, 0, 0, inkColour, true)
 	b.line(dimensionColour, 1, Point{b.sx(0), mid}, Point{b.sx(in.Model.Length()), mid})
 	for _, piece := range l.Polylines(600) {

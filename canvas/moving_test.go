@@ -49,6 +49,38 @@ func movingAtWorst(t *testing.T, m *fem.Model, tr *moving.Train, target moving.T
 	return MovingInput{Model: m, Units: units.SI, Train: tr, At: hi.Placement, Envelope: env, Quantity: 3, Line: line, Worst: []moving.Extreme{hi, lo}}
 }
 
+// The picture names the side a target is read on where it says one, as
+// the text output does: the shear force just left of the middle support of
+// the fixture differs from the one just right of it by the reaction there.
+func TestMovingPictureNamesTheSide(t *testing.T) {
+	in := movingFixture(t)
+	for _, c := range []struct {
+		side fem.Side
+		want string
+	}{{fem.Left, "influence line of the shear force at x = 5.000 m, just left of it,"}, {fem.Right, "influence line of the shear force at x = 5.000 m,"}} {
+		tg := moving.Target{Quantity: fem.QShearForce, X: 5, Side: c.side}
+		p, err := fem.Prepare(in.Model)
+		if err != nil {
+			t.Fatal(err)
+		}
+		inf, err := moving.New(p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if in.Line, err = inf.Line(tg); err != nil {
+			t.Fatal(err)
+		}
+		s, _ := BuildMoving(in, 1200, 700)
+		found := false
+		for _, it := range s.Items {
+			found = found || it.Kind == Text && strings.HasPrefix(it.Text, c.want)
+		}
+		if !found {
+			t.Errorf("side %v: no text starting %q", c.side, c.want)
+		}
+	}
+}
+
 // The picture draws each axle where the train stands, names the envelope's
 // quantity and the line's target, and marks the worst positions' values.
 func TestMovingPicture(t *testing.T) {

@@ -87,6 +87,7 @@ func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
 		}
 		return v
 	}
+	out.Largest.Value, out.Smallest.Value = clean(out.Largest.Value), clean(out.Smallest.Value)
 	for i, s := range positions {
 		sample := InfluenceSample{S: s, Exact: clean(sampleAt(line, r.Target, s, L))}
 		if fe != nil {
@@ -106,21 +107,18 @@ func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
 // sampleAt is line l of target t at load position s on a member of length
 // L. A load on t's own point stands on the far side of the cut from the
 // side t is read on (the shear force just right of x has a load at x on
-// its left), as the finite element load on the node there does. The line
-// that jumps there, the shear force's, is then the limit on the side read
-// less the unit load crossing the cut, which holds at an end of the member
-// too, where the line has no piece beyond.
+// its left), as the finite element load on the node there does. A line
+// that jumps there (the shear force's, the axial force's and stress's) is
+// then the limit on the side read less the jump (Line.Jump), which holds at
+// an end of the member too, where the line has no piece beyond.
 func sampleAt(l *moving.Line, t moving.Target, s, L float64) float64 {
-	if t.Reaction || t.Quantity != fem.QShearForce || math.Abs(s-t.X) > 1e-12*L {
+	if l.Jump() == 0 || math.Abs(s-t.X) > 1e-12*L {
 		return l.At(s, fem.Right)
 	}
-	switch {
-	case t.Side == fem.Right && t.X < L:
-		return l.At(s, fem.Right) - 1
-	case t.Side == fem.Left && t.X > 0:
-		return l.At(s, fem.Left) + 1
+	if t.Side == fem.Left {
+		return l.At(s, fem.Left) + l.Jump()
 	}
-	return l.At(s, fem.Right)
+	return l.At(s, fem.Right) - l.Jump()
 }
 
 // influenceUnit is the unit of the line's ordinates in u: the target's
@@ -277,14 +275,7 @@ func trainExtremeText(e TrainExtreme, k units.Kind, u units.System, at bool, siz
 
 // describeTarget names the target with its position in display units.
 func describeTarget(t moving.Target, u units.System) string {
-	if t.Reaction {
-		return fmt.Sprintf("%s reaction of support %d", t.Motion, t.Support+1)
-	}
-	side := ""
-	if t.Side == fem.Left {
-		side = ", just left of it"
-	}
-	return fmt.Sprintf("%s at x = %s%s", t.Quantity, u.Format(units.Position, t.X), side)
+	return t.Describe(u.Format(units.Position, t.X))
 }
 
 // describeTrain says what a train is, in one line.

@@ -320,3 +320,65 @@ func TestInfluenceCommandShearAtItsOwnPoint(t *testing.T) {
 		})
 	}
 }
+
+// The axial force and stress jump under an axial load at their own point
+// as the shear force does under a transverse one: on a bar fixed at both
+// ends a load P along +x at s pulls the part behind it, N = P·(L − s)/L,
+// and pushes the part ahead, N = −P·s/L (statically indeterminate bar,
+// e.g. Gere & Goodno, Mechanics of Materials, ch. 2, from memory); on a bar
+// fixed at x = 0 alone only the part behind the load carries it, N = P.
+// A load on the point itself stands on the far side of the cut from the
+// side read, as the finite element load on the node there does; the axial
+// stress is N over the area on the side read (the stepped bar's 0.002 m²
+// left of its step at 2 m, 0.001 m² right of it).
+func TestInfluenceCommandAxialForceAtItsOwnPoint(t *testing.T) {
+	for _, c := range []struct {
+		file, quantity, at, side string
+		x, area                  float64
+		fixedFar                 bool // fixed at both ends, else at x = 0 alone
+	}{
+		{"fixed_fixed_thermal", "N", "1", "right", 1, 1, true},
+		{"fixed_fixed_thermal", "N", "1", "left", 1, 1, true},
+		{"fixed_fixed_thermal", "N", "0", "left", 0, 1, true},
+		{"fixed_fixed_thermal", "N", "4", "right", 4, 1, true},
+		{"fixed_fixed_thermal", "sigma_axial", "1", "right", 1, 0.004, true},
+		{"stepped_bar", "N", "2", "right", 2, 1, false},
+		{"stepped_bar", "sigma_axial", "2", "left", 2, 0.002, false},
+		{"stepped_bar", "sigma_axial", "2", "right", 2, 0.001, false},
+		{"stepped_bar", "sigma_axial", "4", "right", 4, 0.001, false},
+	} {
+		t.Run(c.file+" "+c.quantity+" "+c.at+" "+c.side, func(t *testing.T) {
+			const L = 4.0
+			got := influenceRun(t, "../../testdata/"+c.file+".json", "--quantity", c.quantity, "--at", c.at, "--side", c.side, "--points", "8")
+			read := c.side
+			if c.x == 0 {
+				read = "right"
+			} else if c.x == L {
+				read = "left"
+			}
+			want := func(s float64) float64 {
+				loadsLeft := s < c.x || (s == c.x && read == "right")
+				switch {
+				case c.fixedFar && loadsLeft:
+					return -s / L / c.area
+				case c.fixedFar:
+					return (1 - s/L) / c.area
+				case !loadsLeft:
+					return 1 / c.area
+				}
+				return 0
+			}
+			for _, s := range got.Line.Samples {
+				if w := want(s.S); math.Abs(s.Exact-w) > 1e-9*math.Max(1, math.Abs(w)) {
+					t.Errorf("exact line at s = %g: %.15g, want %g", s.S, s.Exact, w)
+				}
+				if s.FE == nil {
+					t.Fatalf("no finite element line at s = %g", s.S)
+				}
+				if w := want(*s.FEAt); math.Abs(*s.FE-w) > 1e-9*math.Max(1, math.Abs(w)) {
+					t.Errorf("finite element line with the load at %g: %.15g, want %g", *s.FEAt, *s.FE, w)
+				}
+			}
+		})
+	}
+}

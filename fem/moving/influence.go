@@ -39,6 +39,20 @@ func (t Target) String() string {
 	return fmt.Sprintf("%s at x = %s m%s", t.Quantity, trim(t.X), side)
 }
 
+// Describe names the target in words for a page, its position written as
+// x (with its unit): "bending moment at x = 2.5 m", ", just left of it"
+// where it is read on the left, or the reaction of a support.
+func (t Target) Describe(x string) string {
+	if t.Reaction {
+		return fmt.Sprintf("%s reaction of support %d", t.Motion, t.Support+1)
+	}
+	side := ""
+	if t.Side == fem.Left {
+		side = ", just left of it"
+	}
+	return fmt.Sprintf("%s at x = %s%s", t.Quantity, x, side)
+}
+
 // inner is t read on the member: at either end only one side of the point
 // lies on it (the right of x = 0, the left of x = L), and that is the side
 // read whatever side t names. Read from outside, the shear force at an end
@@ -154,6 +168,7 @@ func (in *Influence) sweepsFor(t Target) (*sweeps, error) {
 type Line struct {
 	Target Target
 	lines
+	jump float64 // see Jump
 }
 
 // Line returns the influence line of t.
@@ -167,10 +182,36 @@ func (in *Influence) Line(t Target) (*Line, error) {
 	if err != nil {
 		return nil, err
 	}
-	ln := &Line{Target: t}
+	ln := &Line{Target: t, jump: in.jump(t)}
 	ln.fill(s, []reader{r})
 	return ln, nil
 }
+
+// jump is how much the line of t rises as the unit load crosses t's own
+// point towards +x (see Line.Jump).
+func (in *Influence) jump(t Target) float64 {
+	if t.Reaction {
+		return 0
+	}
+	switch t.Quantity {
+	case fem.QShearForce, fem.QAxialForce:
+		return 1
+	case fem.QAxialStress:
+		return 1 / in.model.Segments[segmentAt(in.model, t.X, t.Side)].Section.Area
+	}
+	return 0
+}
+
+// Jump is how much the line rises, per newton, as the unit load crosses
+// the target's own point towards +x: 1 for the shear force and the axial
+// force (the load passes from the part behind the cut to the part ahead),
+// one over the area on the side read for the axial stress, 0 for the
+// quantities that do not jump there and for reactions. A load standing on
+// the point itself lies on the far side of the cut from the side read, so
+// its value is the line's limit on that side less the jump (read on the
+// right) or plus it (read on the left); at an end of the member, where the
+// line has no piece beyond the point, only the jump gives it.
+func (l *Line) Jump() float64 { return l.jump }
 
 // reader is a linear quantity read at one point, in the coefficients of the
 // sweeps: for a load after the point, the row that reads the left sweep's
@@ -499,17 +540,15 @@ func (l *Line) Polylines(n int) [][]Point {
 
 // Extremes are the smallest and the largest value of the line and where
 // they are, from the ends of its pieces and the roots of their derivatives:
-// where a single load does most.
+// where a single load does most. Of values that tie to round-off against
+// the line's size (fem.BeyondField) the first along the member is kept, so
+// that a moment of 1e-16 beside a support's 0 names no place of its own.
 func (l *Line) Extremes() (lo, hi Point) {
-	first := true
+	var cands []Point
+	scale := 0.0
 	take := func(s, v float64) {
-		if first || v < lo.Value {
-			lo = Point{s, v}
-		}
-		if first || v > hi.Value {
-			hi = Point{s, v}
-		}
-		first = false
+		cands = append(cands, Point{s, v})
+		scale = max(scale, math.Abs(v))
 	}
 	for p := range l.pieces() {
 		a, b := l.bounds[p], l.bounds[p+1]
@@ -522,6 +561,15 @@ func (l *Line) Extremes() (lo, hi Point) {
 			take(a+u*l.length, c.at(u))
 		}
 		take(b, c.at(h))
+	}
+	lo, hi = cands[0], cands[0]
+	for _, c := range cands[1:] {
+		if fem.BeyondField(lo.Value, c.Value, scale) {
+			lo = c
+		}
+		if fem.BeyondField(c.Value, hi.Value, scale) {
+			hi = c
+		}
 	}
 	return lo, hi
 }

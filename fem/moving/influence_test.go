@@ -250,3 +250,23 @@ func TestOverhangCantileverAndTwoSpanInfluenceLines(t *testing.T) {
 		})
 	}
 }
+
+// The extremes of a line tie to round-off, the first along the member kept,
+// as the solver's do (fem.Beyond): a cantilever fixed at 0 with a hinged
+// suspended span on a roller at 10 m (hinge at 4 m) has the fixed-end
+// moment M_A = −s for a load at s ≤ 4 and −4·(10 − s)/6 beyond (statics of
+// a hinged beam, e.g. Hibbeler, Structural Analysis, ch. 6, from memory):
+// never positive, zero with the load on either support. Its largest value
+// is that zero at s = 0, not round-off at s = 10 m.
+func TestLineExtremesTieToRoundOff(t *testing.T) {
+	m := beam(10, fem.Support{X: 0, Kind: fem.Fixed}, fem.Support{X: 10, Kind: fem.Roller})
+	m.Hinges = []fem.Hinge{{X: 4}}
+	l := line(t, influence(t, m), Target{Quantity: fem.QBendingMoment, X: 0})
+	lo, hi := l.Extremes()
+	if hi.S != 0 || math.Abs(hi.Value) > 1e-12 {
+		t.Errorf("largest: %.17g with the load at %g, want 0 at 0", hi.Value, hi.S)
+	}
+	if !near(lo.Value, -4, 1e-12) || !near(lo.S, 4, 1e-12) {
+		t.Errorf("smallest: %.17g with the load at %g, want -4 at 4", lo.Value, lo.S)
+	}
+}
