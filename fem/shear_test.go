@@ -242,3 +242,38 @@ func TestShearDeformationIndeterminate(t *testing.T) {
 		}
 	}
 }
+
+// The energy error of a Timoshenko beam counts the shear strain energy
+// ∫V²/(κGA) dx beside ∫M²/EI dx (the strain energy of a beam with shear
+// deformation, Timoshenko & Gere, Mechanics of Materials, from memory). A
+// simply supported beam under a uniform load q on n equal elements of
+// length h: the interdependent interpolation element is exact at the nodes,
+// so on each element the error is the fixed-ended beam's response to q,
+// M − M_h = q·s(h − s)/2 − qh²/12 and V − V_h = q(h/2 − s) (derived here,
+// from the fixed-end moments qh²/12, which shear does not change for a
+// symmetric load), giving ∫(M − M_h)² = q²h⁵/720 and ∫(V − V_h)² = q²h³/12
+// per element; the exact ∫M² = q²L⁵/120 and ∫V² = q²L³/12. So the energy
+// error is √((h⁴/(720EI) + h²/(12κGA)) / (L⁴/(120EI) + L²/(12κGA))), which
+// falls as h² while bending leads and as h once shear does.
+func TestCompareTimoshenkoEnergy(t *testing.T) {
+	const kappa, q, L = 5.0 / 6, -25e3, 2.0
+	ei := testE * testI
+	gka := testE / 2.6 * kappa * testA
+	var errs []float64
+	for n := 1; n <= 64; n *= 2 {
+		m := &Model{Segments: []Segment{shearSegment(0, L, kappa)}, Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+			Mesh: MeshSettings{Elements: n}}
+		loadedUniformly(L, q)(m)
+		s, e := solveBoth(t, m)
+		got := Compare(s, e).RelativeEnergy
+		h := L / float64(n)
+		want := math.Sqrt((h*h*h*h/(720*ei) + h*h/(12*gka)) / (L*L*L*L/(120*ei) + L*L/(12*gka)))
+		if math.Abs(got-want) > 1e-8*want {
+			t.Errorf("%d elements: energy error %.12g, want %.12g", n, got, want)
+		}
+		errs = append(errs, got)
+	}
+	if r := observedRate(errs); math.Abs(r-1) > 0.05 {
+		t.Errorf("energy error rate on the finest meshes %.3f, want 1 (shear leads)", r)
+	}
+}
