@@ -246,34 +246,61 @@ func TestShearDeformationIndeterminate(t *testing.T) {
 // The energy error of a Timoshenko beam counts the shear strain energy
 // ∫V²/(κGA) dx beside ∫M²/EI dx (the strain energy of a beam with shear
 // deformation, Timoshenko & Gere, Mechanics of Materials, from memory). A
-// simply supported beam under a uniform load q on n equal elements of
-// length h: the interdependent interpolation element is exact at the nodes,
-// so on each element the error is the fixed-ended beam's response to q,
-// M − M_h = q·s(h − s)/2 − qh²/12 and V − V_h = q(h/2 − s) (derived here,
-// from the fixed-end moments qh²/12, which shear does not change for a
-// symmetric load), giving ∫(M − M_h)² = q²h⁵/720 and ∫(V − V_h)² = q²h³/12
-// per element; the exact ∫M² = q²L⁵/120 and ∫V² = q²L³/12. So the energy
-// error is √((h⁴/(720EI) + h²/(12κGA)) / (L⁴/(120EI) + L²/(12κGA))), which
-// falls as h² while bending leads and as h once shear does.
+// simply supported beam under a uniform load q on equal elements of length
+// h: the interdependent interpolation element, like the Hermite one, is
+// exact at the nodes, so on each element the error is the fixed-ended
+// element's response to q, M − M_h = q·s(h − s)/2 − qh²/12 and
+// V − V_h = q(h/2 − s) (derived here, from the fixed-end moments qh²/12,
+// which shear does not change for a symmetric load), giving
+// ∫(M − M_h)² = q²h⁵/720 and ∫(V − V_h)² = q²h³/12 per element. The exact
+// M = qx(L − x)/2 and V = q(L/2 − x) (statics) give ∫M² = q²L⁵/240 and
+// ∫V² = q²L³/24 over each half of the span. On one Timoshenko segment the
+// energy error is √((h⁴/(720EI) + h²/(12κGA)) / (L⁴/(120EI) + L²/(12κGA))),
+// which falls as h² while bending leads and as h once shear does; on a
+// member whose left half is an Euler–Bernoulli beam and whose right half
+// deforms in shear with half the I, only the right half adds shear energy.
 func TestCompareTimoshenkoEnergy(t *testing.T) {
 	const kappa, q, L = 5.0 / 6, -25e3, 2.0
 	ei := testE * testI
 	gka := testE / 2.6 * kappa * testA
-	var errs []float64
-	for n := 1; n <= 64; n *= 2 {
-		m := &Model{Segments: []Segment{shearSegment(0, L, kappa)}, Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
-			Mesh: MeshSettings{Elements: n}}
-		loadedUniformly(L, q)(m)
-		s, e := solveBoth(t, m)
-		got := Compare(s, e).RelativeEnergy
-		h := L / float64(n)
-		want := math.Sqrt((h*h*h*h/(720*ei) + h*h/(12*gka)) / (L*L*L*L/(120*ei) + L*L/(12*gka)))
-		if math.Abs(got-want) > 1e-8*want {
-			t.Errorf("%d elements: energy error %.12g, want %.12g", n, got, want)
-		}
-		errs = append(errs, got)
+	halfI := func() []Segment {
+		left, right := testSegment(0, L/2), shearSegment(L/2, L, kappa)
+		left.Material.Density = 0
+		right.Section.SecondMoment /= 2
+		return []Segment{left, right}
 	}
-	if r := observedRate(errs); math.Abs(r-1) > 0.05 {
-		t.Errorf("energy error rate on the finest meshes %.3f, want 1 (shear leads)", r)
+	for _, c := range []struct {
+		name     string
+		segments []Segment
+		// The sums over the member of ∫M²/EI and ∫V²/(κGA) per unit q²,
+		// exact and of the error on elements of length h.
+		exact float64
+		error func(h float64) float64
+	}{
+		{"one Timoshenko segment", []Segment{shearSegment(0, L, kappa)},
+			L*L*L*L*L/(120*ei) + L*L*L/(12*gka),
+			func(h float64) float64 { return L * (h*h*h*h/(720*ei) + h*h/(12*gka)) }},
+		{"Euler–Bernoulli half, Timoshenko half", halfI(),
+			L*L*L*L*L/240*(1/ei+2/ei) + L*L*L/(24*gka),
+			func(h float64) float64 { return L / 2 * (h*h*h*h/(720*ei) + h*h*h*h/(360*ei) + h*h/(12*gka)) }},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			var errs []float64
+			for n := 2; n <= 64; n *= 2 {
+				m := &Model{Segments: c.segments, Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+					Mesh: MeshSettings{Elements: n}}
+				loadedUniformly(L, q)(m)
+				s, e := solveBoth(t, m)
+				got := Compare(s, e).RelativeEnergy
+				want := math.Sqrt(c.error(L/float64(n)) / c.exact)
+				if math.Abs(got-want) > 1e-8*want {
+					t.Errorf("%d elements: energy error %.12g, want %.12g", n, got, want)
+				}
+				errs = append(errs, got)
+			}
+			if r := observedRate(errs); math.Abs(r-1) > 0.05 {
+				t.Errorf("energy error rate on the finest meshes %.3f, want 1 (shear leads)", r)
+			}
+		})
 	}
 }
