@@ -304,3 +304,38 @@ func TestCompareTimoshenkoEnergy(t *testing.T) {
 		})
 	}
 }
+
+// The displacement errors of a Timoshenko beam: a simply supported one under
+// a uniform load q on n elements of length h misses on each element the
+// deflection of a fixed-ended element under q, qs²(h − s)²/(24EI) +
+// qs(h − s)/(2κGA) (Timoshenko & Gere, fixed-ended beam with shear
+// deformation, from memory; the element is exact at the nodes), largest at
+// its middle, qh⁴/(384EI) + qh²/(8κGA). With a = qh⁴/(24EI) and
+// b = qh²/(2κGA) its square integrates to h·(a²/630 + ab/70 + b²/30) (beta
+// integrals), and the exact deflection qx(L³ − 2Lx² + x³)/(24EI) +
+// qx(L − x)/(2κGA) (the same source) to L·(31A²/630 + 17AB/210 + B²/30)
+// with A = qL⁴/(24EI) and B = qL²/(2κGA).
+func TestCompareTimoshenkoDisplacement(t *testing.T) {
+	const kappa, q, L = 5.0 / 6, -25e3, 2.0
+	ei := testE * testI
+	gka := testE / 2.6 * kappa * testA
+	A, B := q*L*L*L*L/(24*ei), q*L*L/(2*gka)
+	exact := L * (31*A*A/630 + 17*A*B/210 + B*B/30)
+	for _, n := range []int{1, 4, 16} {
+		m := &Model{Segments: []Segment{shearSegment(0, L, kappa)}, Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+			Mesh: MeshSettings{Elements: n}}
+		loadedUniformly(L, q)(m)
+		s, e := solveBoth(t, m)
+		got := Compare(s, e)
+		h := L / float64(n)
+		a, b := q*h*h*h*h/(24*ei), q*h*h/(2*gka)
+		for _, c := range []check{
+			{"RelativeL2", got.RelativeL2, math.Sqrt(float64(n) * h * (a*a/630 + a*b/70 + b*b/30) / exact)},
+			{"MaxDeflection", got.MaxDeflection, math.Abs(a/16 + b/4)},
+		} {
+			if math.Abs(c.got-c.want) > 1e-8*c.want {
+				t.Errorf("%d elements: %s = %.12g, want %.12g", n, c.what, c.got, c.want)
+			}
+		}
+	}
+}
