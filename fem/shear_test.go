@@ -339,3 +339,93 @@ func TestCompareTimoshenkoDisplacement(t *testing.T) {
 		}
 	}
 }
+
+// Shear deformation in statically indeterminate beams, by the flexibility
+// method with the unit-load deflections of a beam with shear deformation,
+// δ = ∫M·m/EI + ∫V·v/(κGA) (Timoshenko & Gere, Mechanics of Materials;
+// Roark's Formulas for Stress and Strain, cantilever and simply supported
+// cases with shear; from memory). With a = L³/(3EI) + L/(κGA), the
+// deflection of a cantilever's tip under a unit tip load:
+//   - a beam continuous over two spans L under a uniform load q: the
+//     middle support takes the midspan deflection of the simply supported
+//     span 2L, 5q(2L)⁴/(384EI) + q(2L)²/(8κGA), over its deflection under a
+//     unit load there, (2L)³/(48EI) + 2L/(4κGA);
+//   - a propped cantilever whose prop settles by Δ takes R = Δ/a there;
+//   - a propped cantilever warmer below by ΔT (free curvature k = αΔT/h
+//     lifts the free tip by kL²/2) takes R = −kL²/(2a);
+//   - a cantilever under a uniform load on a spring k at its tip takes
+//     R = −q(L⁴/(8EI) + L²/(2κGA))/(a + 1/k);
+//   - a beam fixed at x = 0 with a hinge at c and a roller at L, under a
+//     uniform load q, hangs the span beyond the hinge on it, F = q(L − c)/2,
+//     and deflects there by qc⁴/(8EI) + qc²/(2κGA) + Fc³/(3EI) + Fc/(κGA);
+//   - a cantilever whose inner half is an Euler–Bernoulli beam and whose
+//     outer half deforms in shear with half the I deflects under a tip
+//     load P by P(7L³/24 + 2·L³/24)/EI from bending (∫(L − x)²/EI over
+//     each half) and PL/(2κGA) from the shear of the outer half alone.
+func TestShearDeformationClosedForms(t *testing.T) {
+	const kappa, q, P, L, k, delta, dT = 5.0 / 6, -25e3, -40e3, 4.0, 5e7, -2e-3, 30.0
+	ei := testE * testI
+	gka := testE / 2.6 * kappa * testA
+	a := L*L*L/(3*ei) + L/gka
+	curvature := testα * dT / (2 * testC)
+	for _, c := range []struct {
+		name  string
+		model func() *Model
+		value func(s Field, r []Reaction) float64
+		want  float64
+	}{
+		{"two spans, uniform load, middle support", func() *Model {
+			m := &Model{Segments: []Segment{shearSegment(0, 2*L, kappa)},
+				Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}, {X: 2 * L, Kind: Roller}}}
+			loadedUniformly(2*L, q)(m)
+			return m
+		}, func(_ Field, r []Reaction) float64 { return r[1].Force[Transverse] },
+			-q * (5*16*L*L*L*L/(384*ei) + 4*L*L/(8*gka)) / (8*L*L*L/(48*ei) + 2*L/(4*gka))},
+		{"propped cantilever, prop settles", func() *Model {
+			return &Model{Segments: []Segment{shearSegment(0, L, kappa)},
+				Supports: []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Roller, Settlement: [3]float64{0, delta, 0}}}}
+		}, func(_ Field, r []Reaction) float64 { return r[1].Force[Transverse] }, delta / a},
+		{"propped cantilever, warmer below", func() *Model {
+			s := shearSegment(0, L, kappa)
+			s.TemperatureDifference = dT
+			return &Model{Segments: []Segment{s}, Supports: []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Roller}}}
+		}, func(_ Field, r []Reaction) float64 { return r[1].Force[Transverse] }, -curvature * L * L / (2 * a)},
+		{"cantilever on a spring, uniform load", func() *Model {
+			m := &Model{Segments: []Segment{shearSegment(0, L, kappa)},
+				Supports: []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Spring, Stiffness: [3]float64{0, k, 0}}}}
+			loadedUniformly(L, q)(m)
+			return m
+		}, func(_ Field, r []Reaction) float64 { return r[1].Force[Transverse] },
+			-q * (L*L*L*L/(8*ei) + L*L/(2*gka)) / (a + 1/k)},
+		{"hinge, deflection there", func() *Model {
+			m := &Model{Segments: []Segment{shearSegment(0, L, kappa)},
+				Supports: []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Roller}}, Hinges: []Hinge{{X: L / 4}}}
+			loadedUniformly(L, q)(m)
+			return m
+		}, func(s Field, _ []Reaction) float64 { return s.At(L/4, Left).Deflection }, func() float64 {
+			c, f := L/4, q*3*L/4/2
+			return q*c*c*c*c/(8*ei) + q*c*c/(2*gka) + f*c*c*c/(3*ei) + f*c/gka
+		}()},
+		{"stepped cantilever, shear in the outer half", func() *Model {
+			inner, outer := testSegment(0, L/2), shearSegment(L/2, L, kappa)
+			inner.Material.Density = 0
+			outer.Section.SecondMoment /= 2
+			return &Model{Segments: []Segment{inner, outer}, Supports: []Support{{X: 0, Kind: Fixed}},
+				PointLoads: []PointLoad{{X: L, Transverse: P}}}
+		}, func(s Field, _ []Reaction) float64 { return s.At(L, Left).Deflection },
+			P * (3*L*L*L/(8*ei) + L/(2*gka))},
+	} {
+		m := c.model()
+		m.Mesh.Elements = 8
+		s := mustSolve(t, m)
+		e, err := SolveExact(m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for name, got := range map[string]float64{"FE": c.value(s, s.Reactions), "exact": c.value(e, e.Reactions())} {
+			if math.Abs(got-c.want) > 1e-9*math.Abs(c.want) {
+				t.Errorf("%s, %s: %.12g, want %.12g", c.name, name, got, c.want)
+			}
+		}
+	}
+}
