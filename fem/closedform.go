@@ -246,7 +246,9 @@ func (v *Interval) closedPanels() int {
 // visitClosed is Comparison.Visit where the exact solution on the element
 // is in closed form: the largest errors of u, w and the combined stress
 // (on the fibre the finite element solution takes) by sampling both, the
-// integrals by Gauss panels.
+// integrals by Gauss panels. Only a stretch on a foundation is read so, and
+// a foundation is refused under a segment with shear deformation, so the
+// energy here has no shear term.
 func (c *Comparison) visitClosed(v *ElementView) {
 	fe, ex := &v.FE, &v.Exact
 	n := ex.closedPieces()

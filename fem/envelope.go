@@ -539,7 +539,8 @@ func (w *envelopeWalk) patternRange(a *Polynomial, d int) (lo, hi extremum) {
 	return lo, hi
 }
 
-// rangeBetween is rangeOn on [a, b] ⊂ [0, 1].
+// rangeBetween is rangeOn on [a, b] ⊂ [0, 1], roots within endSlack of a
+// or b taken as there.
 func rangeBetween(p *Polynomial, d int, a, b float64) (lo, hi extremum) {
 	va := p.at(d, a)
 	lo, hi = extremum{a, va}, extremum{a, va}
@@ -547,7 +548,7 @@ func rangeBetween(p *Polynomial, d int, a, b float64) (lo, hi extremum) {
 		dp := p.Derivative()
 		var r [polynomialTerms - 1]float64
 		for _, xi := range r[:dp.roots(&r)] {
-			if xi > a && xi < b {
+			if within(xi, a, b) {
 				v := p.at(d, xi)
 				lo.least(xi, v)
 				hi.most(xi, v)

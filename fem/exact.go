@@ -488,7 +488,7 @@ func newStretch(m *Model, l *Loads, j int) exactStretch {
 	} else {
 		s.beam = newStretchSolution(exactBeam.order, ei, s.length, transverse[0], transverse[1])
 	}
-	s.shear, s.load, s.axialLoad = seg.shearFlexibility(), transverse, axial
+	s.shear, s.load, s.axialLoad = seg.ShearFlexibility(), transverse, axial
 	if l.TemperatureDifference != nil {
 		s.beam.offset = -ei * mat.ThermalExpansion * l.TemperatureDifference[m.SegmentAt(0.5*(a+b))] / sec.depth()
 	}

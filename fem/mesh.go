@@ -50,7 +50,7 @@ func systemKeyPoints(m *Model) []float64 {
 // what is read off the fields, such as stresses).
 func sameStiffness(a, b Segment) bool {
 	ea, eb := a.Material, b.Material
-	return a.shearFlexibility() == b.shearFlexibility() &&
+	return a.ShearFlexibility() == b.ShearFlexibility() &&
 		ea.Elastic*a.Section.Area == eb.Elastic*b.Section.Area &&
 		ea.Elastic*a.Section.SecondMoment == eb.Elastic*b.Section.SecondMoment &&
 		ea.ThermalExpansion == eb.ThermalExpansion &&

@@ -97,9 +97,9 @@ type Segment struct {
 	ShearDeformation bool
 }
 
-// shearFlexibility is EI/(G·As) of a segment with shear deformation, m²;
+// ShearFlexibility is EI/(G·As) of a segment with shear deformation, m²;
 // 0 without (Euler–Bernoulli).
-func (s Segment) shearFlexibility() float64 {
+func (s Segment) ShearFlexibility() float64 {
 	if !s.ShearDeformation {
 		return 0
 	}

@@ -15,6 +15,8 @@ import "math"
 //     energy of the difference between the two solutions, as a share of
 //     the square root of the exact strain energy — the measure finite
 //     element theory bounds, and the one adaptive refinement aims at.
+//     Both energies are the whole strain energy: axial and bending, and
+//     on a segment with shear deformation the shear strain energy too.
 //
 // Each is divided by a measure of the exact solution, and a measure can
 // vanish: a bar held at both ends and heated does not move, a free bar
@@ -73,9 +75,11 @@ func Compare(s *Solution, e *Exact) ErrorNorms {
 // of the derivative of their difference, and the L2 and energy norms are
 // integrated by Gauss–Legendre rules exact for the degrees involved (every
 // key point of the model is a node). The energy norm is
-// sqrt(∫ EA·(ε_h − ε)² + EI·(κ_h − κ)² dx) with ε = u' − αΔT and κ = w″,
-// computed as (N_h − N)²/EA + (M_h − M)²/EI. The measures of the exact
-// solution alone are taken once, stretch by stretch, by NewComparison.
+// sqrt(∫ EA·(ε_h − ε)² + EI·(κ_h − κ)² + G·As·(γ_h − γ)² dx) with
+// ε = u' − αΔT, κ = θ′ and γ = w′ − θ the shear strain (zero without shear
+// deformation), computed as (N_h − N)²/EA + (M_h − M)²/EI + (V_h − V)²/(G·As).
+// The measures of the exact solution alone are taken once, stretch by
+// stretch, by NewComparison.
 //
 // The stress error compares the finite element combined stress σ_h with
 // the exact stress on the same fibre, the one σ_h is taken at (the larger
@@ -105,9 +109,9 @@ type errorIntegrals struct {
 
 // exactMeasures are the sizes of the exact solution that the relative
 // errors divide by: max |σ| and max of the sizes of the terms that make σ
-// (Pa), the squared L2 norm of the displacements, the energy and the
-// energy of the terms that make N and M, and the squared L2 norms of the
-// strains and curvatures those terms make (m and 1/m).
+// (Pa), the squared L2 norm of the displacements, the energy (shear
+// included) and the energy of the terms that make N and M, and the squared
+// L2 norms of the strains and curvatures those terms make (m and 1/m).
 type exactMeasures struct {
 	stress, stressTerms       float64
 	disp, energy, energyTerms float64
@@ -154,11 +158,14 @@ func (m *exactMeasures) add(st *exactStretch, v *Interval) {
 		uq, wq := u.at(3, q.xi), w.at(5, q.xi)
 		m.disp += q.w * h * (uq*uq + wq*wq)
 	}
-	n, mo := &v.poly[QAxialForce], &v.poly[QBendingMoment]
-	for _, q := range gauss4 { // M² and the terms² are of degree 6 at most
-		nq, mq := n.at(2, q.xi), mo.at(3, q.xi)
+	n, mo, vs := &v.poly[QAxialForce], &v.poly[QBendingMoment], &v.poly[QShearForce]
+	// M² and the terms² are of degree 6 at most, V² of 4; 1/(G·As) is g/EI,
+	// zero without shear deformation.
+	igs := st.shear / ei
+	for _, q := range gauss4 {
+		nq, mq, vq := n.at(2, q.xi), mo.at(3, q.xi), vs.at(2, q.xi)
 		at, bt := axial.at(2, q.xi), bending.at(3, q.xi)
-		m.energy += q.w * h * (nq*nq/ea + mq*mq/ei)
+		m.energy += q.w * h * (nq*nq/ea + mq*mq/ei + vq*vq*igs)
 		m.energyTerms += q.w * h * (at*at/ea + bt*bt/ei)
 		m.strainTerms += q.w * h * at * at / (ea * ea)
 		m.curveTerms += q.w * h * bt * bt / (ei * ei)
@@ -241,12 +248,15 @@ func (c *Comparison) Visit(v *ElementView) {
 	if e := combinedError(fe, ex, m.stress); e.value > m.stress {
 		m.stress, m.stressAt = e.value, fe.X(e.xi)
 	}
-	// dN² and dM² are of degree 6 at most.
-	iea, iei := 1/sec.axialRigidity, 1/sec.flexuralRigidity
+	// dN² and dM² are of degree 6 at most, dV² of degree 4; 1/(G·As) is
+	// g/EI, zero without shear deformation.
+	iea, iei, igs := 1/sec.axialRigidity, 1/sec.flexuralRigidity, sec.shear/sec.flexuralRigidity
+	fv, ev := &fe.poly[QShearForce], &ex.poly[QShearForce]
+	dv := Polynomial{fv[0] - ev[0], fv[1] - ev[1], fv[2] - ev[2]}
 	energy := 0.0
 	for _, q := range &gauss4 {
-		nq, mq := dn.at2(q.xi), dm.at3(q.xi)
-		energy += q.w * (nq*nq*iea + mq*mq*iei)
+		nq, mq, vq := dn.at2(q.xi), dm.at3(q.xi), dv.at2(q.xi)
+		energy += q.w * (nq*nq*iea + mq*mq*iei + vq*vq*igs)
 	}
 	in.energyErr += h * energy
 }

@@ -172,15 +172,29 @@ type Point struct {
 	Value float64
 }
 
+// endSlack is how near an end of an interval (in ξ) a root of a
+// derivative may lie and still be taken as that end. Round-off in the
+// coefficients moves a stationary point at an end (the rotation at a pinned
+// end, where M = 0) an ulp or a few inside, where the value differs from
+// the end's by the square of that distance, far below round-off, yet may
+// win a tie with it: the extreme is then named an ulp short of the node or
+// key point it is at (7.999999999999999 m for 8 m).
+const endSlack = 64 * 0x1p-52
+
+// within reports whether a root ξ of a derivative lies inside (a, b) by
+// more than endSlack: a stationary point to take beside the ends.
+func within(xi, a, b float64) bool { return xi > a+endSlack && xi < b-endSlack }
+
 // rangeOn returns the smallest and largest value of p, of degree at most d,
 // on [0, 1] in ξ: candidates are the ends, valued v0 and v1 (the element's
-// own values there, see Interval), and the roots of the derivative, in
-// closed form up to degree 3; the first met along ξ wins a tie.
+// own values there, see Interval), and the roots of the derivative inside
+// (within), in closed form up to degree 3; the first met along ξ wins a
+// tie.
 func rangeOn(p *Polynomial, d int, v0, v1 float64) (lo, hi extremum) {
 	lo, hi = extremum{0, v0}, extremum{0, v0}
 	switch {
 	case d == 2:
-		if xi := -p[1] / (2 * p[2]); xi > 0 && xi < 1 {
+		if xi := -p[1] / (2 * p[2]); within(xi, 0, 1) {
 			lo.least(xi, p.at(2, xi))
 			hi.most(xi, p.at(2, xi))
 		}
@@ -194,7 +208,7 @@ func rangeOn(p *Polynomial, d int, v0, v1 float64) (lo, hi extremum) {
 				r0, r1 = r1, r0
 			}
 			for _, xi := range [2]float64{r0, r1} {
-				if xi > 0 && xi < 1 {
+				if within(xi, 0, 1) {
 					v := p.at(3, xi)
 					lo.least(xi, v)
 					hi.most(xi, v)
@@ -205,9 +219,11 @@ func rangeOn(p *Polynomial, d int, v0, v1 float64) (lo, hi extremum) {
 		dp := p.Derivative()
 		var r [polynomialTerms - 1]float64
 		for _, xi := range r[:dp.roots(&r)] {
-			v := p.at(d, xi)
-			lo.least(xi, v)
-			hi.most(xi, v)
+			if within(xi, 0, 1) {
+				v := p.at(d, xi)
+				lo.least(xi, v)
+				hi.most(xi, v)
+			}
 		}
 	}
 	lo.least(1, v1)

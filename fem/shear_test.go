@@ -242,3 +242,190 @@ func TestShearDeformationIndeterminate(t *testing.T) {
 		}
 	}
 }
+
+// The energy error of a Timoshenko beam counts the shear strain energy
+// ∫V²/(κGA) dx beside ∫M²/EI dx (the strain energy of a beam with shear
+// deformation, Timoshenko & Gere, Mechanics of Materials, from memory). A
+// simply supported beam under a uniform load q on equal elements of length
+// h: the interdependent interpolation element, like the Hermite one, is
+// exact at the nodes, so on each element the error is the fixed-ended
+// element's response to q, M − M_h = q·s(h − s)/2 − qh²/12 and
+// V − V_h = q(h/2 − s) (derived here, from the fixed-end moments qh²/12,
+// which shear does not change for a symmetric load), giving
+// ∫(M − M_h)² = q²h⁵/720 and ∫(V − V_h)² = q²h³/12 per element. The exact
+// M = qx(L − x)/2 and V = q(L/2 − x) (statics) give ∫M² = q²L⁵/240 and
+// ∫V² = q²L³/24 over each half of the span. On one Timoshenko segment the
+// energy error is √((h⁴/(720EI) + h²/(12κGA)) / (L⁴/(120EI) + L²/(12κGA))),
+// which falls as h² while bending leads and as h once shear does; on a
+// member whose left half is an Euler–Bernoulli beam and whose right half
+// deforms in shear with half the I, only the right half adds shear energy.
+func TestCompareTimoshenkoEnergy(t *testing.T) {
+	const kappa, q, L = 5.0 / 6, -25e3, 2.0
+	ei := testE * testI
+	gka := testE / 2.6 * kappa * testA
+	halfI := func() []Segment {
+		left, right := testSegment(0, L/2), shearSegment(L/2, L, kappa)
+		left.Material.Density = 0
+		right.Section.SecondMoment /= 2
+		return []Segment{left, right}
+	}
+	for _, c := range []struct {
+		name     string
+		segments []Segment
+		// The sums over the member of ∫M²/EI and ∫V²/(κGA) per unit q²,
+		// exact and of the error on elements of length h.
+		exact float64
+		error func(h float64) float64
+	}{
+		{"one Timoshenko segment", []Segment{shearSegment(0, L, kappa)},
+			L*L*L*L*L/(120*ei) + L*L*L/(12*gka),
+			func(h float64) float64 { return L * (h*h*h*h/(720*ei) + h*h/(12*gka)) }},
+		{"Euler–Bernoulli half, Timoshenko half", halfI(),
+			L*L*L*L*L/240*(1/ei+2/ei) + L*L*L/(24*gka),
+			func(h float64) float64 { return L / 2 * (h*h*h*h/(720*ei) + h*h*h*h/(360*ei) + h*h/(12*gka)) }},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			var errs []float64
+			for n := 2; n <= 64; n *= 2 {
+				m := &Model{Segments: c.segments, Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+					Mesh: MeshSettings{Elements: n}}
+				loadedUniformly(L, q)(m)
+				s, e := solveBoth(t, m)
+				got := Compare(s, e).RelativeEnergy
+				want := math.Sqrt(c.error(L/float64(n)) / c.exact)
+				if math.Abs(got-want) > 1e-8*want {
+					t.Errorf("%d elements: energy error %.12g, want %.12g", n, got, want)
+				}
+				errs = append(errs, got)
+			}
+			if r := observedRate(errs); math.Abs(r-1) > 0.05 {
+				t.Errorf("energy error rate on the finest meshes %.3f, want 1 (shear leads)", r)
+			}
+		})
+	}
+}
+
+// The displacement errors of a Timoshenko beam: a simply supported one under
+// a uniform load q on n elements of length h misses on each element the
+// deflection of a fixed-ended element under q, qs²(h − s)²/(24EI) +
+// qs(h − s)/(2κGA) (Timoshenko & Gere, fixed-ended beam with shear
+// deformation, from memory; the element is exact at the nodes), largest at
+// its middle, qh⁴/(384EI) + qh²/(8κGA). With a = qh⁴/(24EI) and
+// b = qh²/(2κGA) its square integrates to h·(a²/630 + ab/70 + b²/30) (beta
+// integrals), and the exact deflection qx(L³ − 2Lx² + x³)/(24EI) +
+// qx(L − x)/(2κGA) (the same source) to L·(31A²/630 + 17AB/210 + B²/30)
+// with A = qL⁴/(24EI) and B = qL²/(2κGA).
+func TestCompareTimoshenkoDisplacement(t *testing.T) {
+	const kappa, q, L = 5.0 / 6, -25e3, 2.0
+	ei := testE * testI
+	gka := testE / 2.6 * kappa * testA
+	A, B := q*L*L*L*L/(24*ei), q*L*L/(2*gka)
+	exact := L * (31*A*A/630 + 17*A*B/210 + B*B/30)
+	for _, n := range []int{1, 4, 16} {
+		m := &Model{Segments: []Segment{shearSegment(0, L, kappa)}, Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+			Mesh: MeshSettings{Elements: n}}
+		loadedUniformly(L, q)(m)
+		s, e := solveBoth(t, m)
+		got := Compare(s, e)
+		h := L / float64(n)
+		a, b := q*h*h*h*h/(24*ei), q*h*h/(2*gka)
+		for _, c := range []check{
+			{"RelativeL2", got.RelativeL2, math.Sqrt(float64(n) * h * (a*a/630 + a*b/70 + b*b/30) / exact)},
+			{"MaxDeflection", got.MaxDeflection, math.Abs(a/16 + b/4)},
+		} {
+			if math.Abs(c.got-c.want) > 1e-8*c.want {
+				t.Errorf("%d elements: %s = %.12g, want %.12g", n, c.what, c.got, c.want)
+			}
+		}
+	}
+}
+
+// Shear deformation in statically indeterminate beams, by the flexibility
+// method with the unit-load deflections of a beam with shear deformation,
+// δ = ∫M·m/EI + ∫V·v/(κGA) (Timoshenko & Gere, Mechanics of Materials;
+// Roark's Formulas for Stress and Strain, cantilever and simply supported
+// cases with shear; from memory). With a = L³/(3EI) + L/(κGA), the
+// deflection of a cantilever's tip under a unit tip load:
+//   - a beam continuous over two spans L under a uniform load q: the
+//     middle support takes the midspan deflection of the simply supported
+//     span 2L, 5q(2L)⁴/(384EI) + q(2L)²/(8κGA), over its deflection under a
+//     unit load there, (2L)³/(48EI) + 2L/(4κGA);
+//   - a propped cantilever whose prop settles by Δ takes R = Δ/a there;
+//   - a propped cantilever warmer below by ΔT (free curvature k = αΔT/h
+//     lifts the free tip by kL²/2) takes R = −kL²/(2a);
+//   - a cantilever under a uniform load on a spring k at its tip takes
+//     R = −q(L⁴/(8EI) + L²/(2κGA))/(a + 1/k);
+//   - a beam fixed at x = 0 with a hinge at c and a roller at L, under a
+//     uniform load q, hangs the span beyond the hinge on it, F = q(L − c)/2,
+//     and deflects there by qc⁴/(8EI) + qc²/(2κGA) + Fc³/(3EI) + Fc/(κGA);
+//   - a cantilever whose inner half is an Euler–Bernoulli beam and whose
+//     outer half deforms in shear with half the I deflects under a tip
+//     load P by P(7L³/24 + 2·L³/24)/EI from bending (∫(L − x)²/EI over
+//     each half) and PL/(2κGA) from the shear of the outer half alone.
+func TestShearDeformationClosedForms(t *testing.T) {
+	const kappa, q, P, L, k, delta, dT = 5.0 / 6, -25e3, -40e3, 4.0, 5e7, -2e-3, 30.0
+	ei := testE * testI
+	gka := testE / 2.6 * kappa * testA
+	a := L*L*L/(3*ei) + L/gka
+	curvature := testα * dT / (2 * testC)
+	for _, c := range []struct {
+		name  string
+		model func() *Model
+		value func(s Field, r []Reaction) float64
+		want  float64
+	}{
+		{"two spans, uniform load, middle support", func() *Model {
+			m := &Model{Segments: []Segment{shearSegment(0, 2*L, kappa)},
+				Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}, {X: 2 * L, Kind: Roller}}}
+			loadedUniformly(2*L, q)(m)
+			return m
+		}, func(_ Field, r []Reaction) float64 { return r[1].Force[Transverse] },
+			-q * (5*16*L*L*L*L/(384*ei) + 4*L*L/(8*gka)) / (8*L*L*L/(48*ei) + 2*L/(4*gka))},
+		{"propped cantilever, prop settles", func() *Model {
+			return &Model{Segments: []Segment{shearSegment(0, L, kappa)},
+				Supports: []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Roller, Settlement: [3]float64{0, delta, 0}}}}
+		}, func(_ Field, r []Reaction) float64 { return r[1].Force[Transverse] }, delta / a},
+		{"propped cantilever, warmer below", func() *Model {
+			s := shearSegment(0, L, kappa)
+			s.TemperatureDifference = dT
+			return &Model{Segments: []Segment{s}, Supports: []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Roller}}}
+		}, func(_ Field, r []Reaction) float64 { return r[1].Force[Transverse] }, -curvature * L * L / (2 * a)},
+		{"cantilever on a spring, uniform load", func() *Model {
+			m := &Model{Segments: []Segment{shearSegment(0, L, kappa)},
+				Supports: []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Spring, Stiffness: [3]float64{0, k, 0}}}}
+			loadedUniformly(L, q)(m)
+			return m
+		}, func(_ Field, r []Reaction) float64 { return r[1].Force[Transverse] },
+			-q * (L*L*L*L/(8*ei) + L*L/(2*gka)) / (a + 1/k)},
+		{"hinge, deflection there", func() *Model {
+			m := &Model{Segments: []Segment{shearSegment(0, L, kappa)},
+				Supports: []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Roller}}, Hinges: []Hinge{{X: L / 4}}}
+			loadedUniformly(L, q)(m)
+			return m
+		}, func(s Field, _ []Reaction) float64 { return s.At(L/4, Left).Deflection }, func() float64 {
+			c, f := L/4, q*3*L/4/2
+			return q*c*c*c*c/(8*ei) + q*c*c/(2*gka) + f*c*c*c/(3*ei) + f*c/gka
+		}()},
+		{"stepped cantilever, shear in the outer half", func() *Model {
+			inner, outer := testSegment(0, L/2), shearSegment(L/2, L, kappa)
+			inner.Material.Density = 0
+			outer.Section.SecondMoment /= 2
+			return &Model{Segments: []Segment{inner, outer}, Supports: []Support{{X: 0, Kind: Fixed}},
+				PointLoads: []PointLoad{{X: L, Transverse: P}}}
+		}, func(s Field, _ []Reaction) float64 { return s.At(L, Left).Deflection },
+			P * (3*L*L*L/(8*ei) + L/(2*gka))},
+	} {
+		m := c.model()
+		m.Mesh.Elements = 8
+		s := mustSolve(t, m)
+		e, err := SolveExact(m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for name, got := range map[string]float64{"FE": c.value(s, s.Reactions), "exact": c.value(e, e.Reactions())} {
+			if math.Abs(got-c.want) > 1e-9*math.Abs(c.want) {
+				t.Errorf("%s, %s: %.12g, want %.12g", c.name, name, got, c.want)
+			}
+		}
+	}
+}

@@ -288,7 +288,7 @@ func sectionTable(m *Model, l *Loads) []sectionData {
 			area:             sec.Area,
 			secondMoment:     sec.SecondMoment,
 			fibre:            sec.FibreDistance,
-			shear:            seg.shearFlexibility(),
+			shear:            seg.ShearFlexibility(),
 		}
 		if l != nil {
 			out[i].thermalStrain = mat.ThermalExpansion * l.TemperatureChange

@@ -349,7 +349,7 @@ func (v *Interval) combinedRange() (lo, hi extremum) {
 			dg := g.Derivative()
 			var r [polynomialTerms - 1]float64
 			for _, xi := range r[:dg.roots(&r)] {
-				if xi > x0 && xi < x1 {
+				if within(xi, x0, x1) {
 					take(xi, g.at(d, xi))
 				}
 			}

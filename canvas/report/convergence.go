@@ -101,7 +101,7 @@ func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Vers
 	if t.Exact {
 		fmt.Fprintf(w, "The finite element answer is exact for this model on every mesh tried (%d to %d elements): its errors are round-off, below %.0e,\n",
 			t.Rows[0].Elements, t.Rows[len(t.Rows)-1].Elements, study.RoundOff)
-		fmt.Fprintln(w, "as with point loads only, which linear bars and Hermite beams reproduce between nodes too. There is no rate to measure.")
+		fmt.Fprintln(w, "as with point loads only, which linear bars and Hermite beams (with shear deformation too) reproduce between nodes. There is no rate to measure.")
 	} else {
 		fmt.Fprintf(w, "(errors relative: %s, %s, %s; rate = log(error ratio) / log(element ratio))\n",
 			fem.StressErrorName, fem.DisplacementErrorName, fem.EnergyErrorName)
@@ -120,7 +120,7 @@ func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Vers
 		}
 		fmt.Fprintf(w, "Rates: stress %s; displacement %s; energy %s\n", rate(t.Stress), rate(t.L2), rate(t.Energy))
 		fmt.Fprintln(w, "Theory for smooth solutions (Strang & Fix): linear bars displacement 2, energy 1; quadratic bars 3 and 2; Hermite beams 4 and 2;")
-		fmt.Fprintln(w, "beams with shear deformation 2 and 2 under line loads, once the shear part of the deflection leads (each element misses q·h²/(8·κGA) of it).")
+		fmt.Fprintln(w, "beams with shear deformation 2 and 1 under line loads, once the shear part leads (each element misses q·h²/(8·κGA) of the deflection, and its constant shear force up to q·h/2).")
 		fmt.Fprintln(w, "A member with both shows the beam's rates on coarse meshes and the bar's on fine ones; the fit takes the finest rows that agree.")
 		fmt.Fprintln(w, "Point loads, steps and partial loads on key points keep these rates, since the mesh has nodes there.")
 	}

@@ -110,10 +110,14 @@ func bisect(mesh fem.Mesh, indicators []float64) []float64 {
 // and superconvergent at the two Gauss points (the interpolation error of w”
 // is proportional to 12s² − h², zero at s = ±h/√12); the axial force of a
 // linear bar is superconvergent at the element middle, that of a quadratic
-// bar at the two Gauss points. A polynomial one degree above the element's
-// is fitted by least squares to these values over the element and its
-// neighbours in the same stretch (superconvergent patch recovery,
-// Zienkiewicz & Zhu 1992), and η_e² = ∫ (M* − M_h)²/EI + (N* − N_h)²/EA dx.
+// bar at the two Gauss points. On a segment with shear deformation the
+// shear force of the interdependent interpolation element is constant and
+// superconvergent at the element middle (it is the mean of the exact one
+// under a uniform load), and enters the strain energy as V²/(G·As). A
+// polynomial one degree above the element's is fitted by least squares to
+// these values over the element and its neighbours in the same stretch
+// (superconvergent patch recovery, Zienkiewicz & Zhu 1992), and
+// η_e² = ∫ (M* − M_h)²/EI + (N* − N_h)²/EA + (V* − V_h)²/(G·As) dx.
 func Estimate(s *fem.Solution, keys []float64) ([]float64, float64) {
 	elements := s.Mesh.Elements
 	stretch := make([]int, len(elements))
@@ -130,6 +134,7 @@ func Estimate(s *fem.Solution, keys []float64) ([]float64, float64) {
 	}
 	moment := func(f fem.Fields) float64 { return f.BendingMoment }
 	axial := func(f fem.Fields) float64 { return f.AxialForce }
+	shear := func(f fem.Fields) float64 { return f.ShearForce }
 	indicators := make([]float64, len(elements))
 	var errorSquared, normSquared float64
 	xs, ws := make([]float64, 4), make([]float64, 4)
@@ -145,13 +150,18 @@ func Estimate(s *fem.Solution, keys []float64) ([]float64, float64) {
 		seg := s.Model.Segments[el.Segment]
 		ei := seg.Material.Elastic * seg.Section.SecondMoment
 		ea := seg.Material.Elastic * seg.Section.Area
+		igs := seg.ShearFlexibility() / ei // 1/(G·As), 0 without shear deformation
+		recoveredShear := func(float64) float64 { return 0 }
+		if igs != 0 {
+			recoveredShear = fitPatch(s, patch, 1, 1, shear)
+		}
 		quad.Legendre{}.FixedLocations(xs, ws, el.Start, el.End)
 		var eta2 float64
 		for q, x := range xs {
 			f := s.At(x, fem.Right)
-			dm, dn := recoveredMoment(x)-f.BendingMoment, recoveredAxial(x)-f.AxialForce
-			eta2 += ws[q] * (dm*dm/ei + dn*dn/ea)
-			normSquared += ws[q] * (f.BendingMoment*f.BendingMoment/ei + f.AxialForce*f.AxialForce/ea)
+			dm, dn, dv := recoveredMoment(x)-f.BendingMoment, recoveredAxial(x)-f.AxialForce, recoveredShear(x)-f.ShearForce
+			eta2 += ws[q] * (dm*dm/ei + dn*dn/ea + dv*dv*igs)
+			normSquared += ws[q] * (f.BendingMoment*f.BendingMoment/ei + f.AxialForce*f.AxialForce/ea + f.ShearForce*f.ShearForce*igs)
 		}
 		indicators[i] = math.Sqrt(eta2)
 		errorSquared += eta2
