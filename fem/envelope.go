@@ -879,6 +879,51 @@ func (cs *CombinationSolutions) worst(c int, a float64, shares, tolerances []flo
 	return lo, hi
 }
 
+// Arranged is combination c's smallest and largest value of each of qs
+// (polynomial quantities) at x, read on side where a field jumps, over the
+// arrangements of its cases placed by span, from the exact solutions
+// (SolveExact), with the spans loaded for each: what a moving load train
+// taken with the combination adds to, point by point, for the worst of
+// both (every span loaded can fall short of it).
+func (cs *CombinationSolutions) Arranged(c int, qs []Quantity, x float64, side Side) (lo, hi []Governing) {
+	n := len(cs.SharesExact)
+	shares := make([]Fields, n)
+	for j, e := range cs.SharesExact {
+		shares[j] = e.At(x, side)
+	}
+	fixed := cs.FixedExact[c].At(x, side)
+	tolerances := shareTolerances(cs.Shares)
+	column, tolerance := make([]float64, n), make([]float64, n)
+	lo, hi = make([]Governing, len(qs)), make([]Governing, len(qs))
+	for k, q := range qs {
+		for j := range shares {
+			column[j], tolerance[j] = q.Of(&shares[j]), tolerances[j][q]
+		}
+		lo[k], hi[k] = cs.worst(c, q.Of(&fixed), column, tolerance)
+		lo[k].X, hi[k].X = x, x
+	}
+	return lo, hi
+}
+
+// ArrangedReaction is combination c's smallest and largest reaction of
+// support i (an index into Model.Supports) in motion d over the
+// arrangements of its cases placed by span, from the exact solutions, with
+// the spans loaded for each.
+func (cs *CombinationSolutions) ArrangedReaction(c, i int, d Dof) (lo, hi Governing) {
+	q := QShearForce
+	if d == Rotation {
+		q = QBendingMoment
+	}
+	shares, tolerances := make([]float64, len(cs.SharesExact)), make([]float64, len(cs.SharesExact))
+	for j, e := range cs.SharesExact {
+		shares[j], tolerances[j] = e.Reactions()[i].Force[d], shareTolerance(cs.Shares[j], int(q))
+	}
+	lo, hi = cs.worst(c, cs.FixedExact[c].Reactions()[i].Force[d], shares, tolerances)
+	x := cs.Fixed[0].Model.Supports[i].X
+	lo.X, hi.X = x, x
+	return lo, hi
+}
+
 // EnvelopeSample is the envelope at one x: every quantity's smallest and
 // largest value over the combinations and arrangements (the combined
 // stress over both fibres), and the combination governing each.

@@ -177,7 +177,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 	out.Envelope = EnvelopeJSON{Caution: CombinedCaution, Solution: envelopeSolution(env), Spans: c.Solutions.Loads.Spans}
 	for _, q := range env.Quantities {
 		out.Envelope.Quantities = append(out.Envelope.Quantities, QuantityEnvelope{Quantity: q.Quantity, Name: q.Quantity.Key(), Unit: q.Quantity.Info().SI,
-			Max: governingJSON(m, c, q.Max), Min: governingJSON(m, c, q.Min)})
+			Max: governingJSON(m, c.Combinations, q.Max), Min: governingJSON(m, c.Combinations, q.Min)})
 	}
 	for _, r := range env.Reactions {
 		sup := m.Supports[r.Support]
@@ -186,7 +186,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 		for d, name := range componentNames {
 			rj.Max[name], rj.Min[name] = nil, nil
 			if sup.Holds(fem.Dof(d)) {
-				hi, lo := governingJSON(m, c, r.Max[d]), governingJSON(m, c, r.Min[d])
+				hi, lo := governingJSON(m, c.Combinations, r.Max[d]), governingJSON(m, c.Combinations, r.Min[d])
 				rj.Max[name], rj.Min[name] = &hi, &lo
 			}
 		}
@@ -197,15 +197,15 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 		fj := FoundationEnvelopeJS{Foundation: f.Foundation + 1, Start: f.Start, End: f.End,
 			Max: map[string]GoverningJSON{}, Min: map[string]GoverningJSON{}}
 		for d, name := range componentNames[:2] {
-			fj.Max[name], fj.Min[name] = governingJSON(m, c, f.Max[d]), governingJSON(m, c, f.Min[d])
+			fj.Max[name], fj.Min[name] = governingJSON(m, c.Combinations, f.Max[d]), governingJSON(m, c.Combinations, f.Min[d])
 		}
 		out.Envelope.Foundations = append(out.Envelope.Foundations, fj)
 	}
 	return out, nil
 }
 
-func governingJSON(m *fem.Model, c *analysis.Cases, g fem.Governing) GoverningJSON {
-	out := GoverningJSON{Value: g.Value, X: g.X, Combination: c.Combinations[g.Combination].Name, LoadedSpans: []LoadedSpansJSON{}}
+func governingJSON(m *fem.Model, combinations []fem.Combination, g fem.Governing) GoverningJSON {
+	out := GoverningJSON{Value: g.Value, X: g.X, Combination: combinations[g.Combination].Name, LoadedSpans: []LoadedSpansJSON{}}
 	for _, s := range g.Loaded {
 		name := m.LoadSetName(s.Case)
 		i := slices.IndexFunc(out.LoadedSpans, func(l LoadedSpansJSON) bool { return l.Case == name })
@@ -215,34 +215,12 @@ func governingJSON(m *fem.Model, c *analysis.Cases, g fem.Governing) GoverningJS
 		}
 		out.LoadedSpans[i].Spans = append(out.LoadedSpans[i].Spans, s.Span+1)
 	}
-	for _, cf := range c.Combinations[g.Combination].Factors {
+	for _, cf := range combinations[g.Combination].Factors {
 		// A case placed by span with no span loaded: say so.
 		if cf.Case < len(m.Cases) && m.Cases[cf.Case].BySpan && cf.Factor != 0 {
 			name := m.LoadSetName(cf.Case)
 			if !slices.ContainsFunc(out.LoadedSpans, func(l LoadedSpansJSON) bool { return l.Case == name }) {
 				out.LoadedSpans = append(out.LoadedSpans, LoadedSpansJSON{Case: name, Spans: []int{}})
-			}
-		}
-	}
-	return out
-}
-
-// everySpan are the loaded spans of combination name of m with a train:
-// every one of its n spans for each case it places by span (a combination
-// that takes a train is worked out with every span loaded).
-func everySpan(m *fem.Model, name string, n int) []LoadedSpansJSON {
-	out := []LoadedSpansJSON{}
-	for _, cb := range m.Combinations {
-		if cb.Name != name {
-			continue
-		}
-		for _, cf := range cb.Factors {
-			if cf.Case < len(m.Cases) && m.Cases[cf.Case].BySpan && cf.Factor != 0 {
-				spans := make([]int, n)
-				for i := range spans {
-					spans[i] = i + 1
-				}
-				out = append(out, LoadedSpansJSON{Case: m.LoadSetName(cf.Case), Spans: spans})
 			}
 		}
 	}
@@ -355,31 +333,35 @@ func (r *CasesJSON) addTrainExtremes(m *fem.Model, trains []TrainResult) {
 	unstressedAlong := axial != nil && axial.Max.Value == 0 && axial.Min.Value == 0
 	for _, tr := range trains {
 		for _, c := range tr.Combinations {
-			loaded := everySpan(m, c.Combination, len(r.Envelope.Spans))
-			governing := func(e TrainExtreme) GoverningJSON {
-				return GoverningJSON{Value: e.Value, X: e.X, Combination: c.Combination, LoadedSpans: loaded,
-					Train: &TrainPlacementJSON{Name: tr.Train.Name, Front: e.Front, Direction: e.Direction}}
+			// upper says the extreme is a largest value, whose cases'
+			// arrangement is the one that raises q there.
+			governing := func(g fem.Governing, e TrainExtreme) GoverningJSON {
+				g.Value, g.X = e.Value, e.X
+				out := governingJSON(m, m.Combinations, g)
+				out.Train = &TrainPlacementJSON{Name: tr.Train.Name, Front: e.Front, Direction: e.Direction}
+				return out
 			}
 			for _, w := range c.Worst {
 				if q := envelope(w.Quantity); q != nil {
 					if w.Largest.Value > q.Max.Value {
-						q.Max = governing(w.Largest)
+						q.Max = governing(c.Loaded(w.Quantity, w.Largest.X, true), w.Largest)
 					}
 					if w.Smallest.Value < q.Min.Value {
-						q.Min = governing(w.Smallest)
+						q.Min = governing(c.Loaded(w.Quantity, w.Smallest.X, false), w.Smallest)
 					}
 				}
 				if q := envelope(fem.QCombinedStress); q != nil && unstressedAlong && w.Quantity == fem.QBendingStress {
-					worse := w.Largest
+					worse, upper := w.Largest, true
 					if -w.Smallest.Value > worse.Value {
-						worse = w.Smallest
+						worse, upper = w.Smallest, false
 						worse.Value = -worse.Value
 					}
+					loaded := c.Loaded(w.Quantity, worse.X, upper)
 					if worse.Value > q.Max.Value {
-						q.Max = governing(worse)
+						q.Max = governing(loaded, worse)
 					}
 					if worse.Value > -q.Min.Value {
-						q.Min = governing(worse)
+						q.Min = governing(loaded, worse)
 						q.Min.Value = -worse.Value
 					}
 				}
@@ -392,11 +374,12 @@ func (r *CasesJSON) addTrainExtremes(m *fem.Model, trains []TrainResult) {
 						continue
 					}
 					x := m.Supports[re.Support].X
+					lo, hi := c.solutions.ArrangedReaction(c.index, re.Support, re.Motion)
 					if g := env.Max[name]; g != nil && re.Max > g.Value {
-						*g = governing(TrainExtreme{Value: re.Max, X: x, Front: re.MaxAt.Front, Direction: re.MaxAt.Direction.String()})
+						*g = governing(hi, TrainExtreme{Value: re.Max, X: x, Front: re.MaxAt.Front, Direction: re.MaxAt.Direction.String()})
 					}
 					if g := env.Min[name]; g != nil && re.Min < g.Value {
-						*g = governing(TrainExtreme{Value: re.Min, X: x, Front: re.MinAt.Front, Direction: re.MinAt.Direction.String()})
+						*g = governing(lo, TrainExtreme{Value: re.Min, X: x, Front: re.MinAt.Front, Direction: re.MinAt.Direction.String()})
 					}
 				}
 			}
@@ -452,7 +435,7 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 		fmt.Fprintf(tw, "  %s\t%s\t%s\n", c.Name, kind, FactorsText(c))
 	}
 	if r.takesTrains() {
-		fmt.Fprintln(tw, "  A combination that takes a train enters the envelope below with its train at the train's worst position (every span loaded); the trains further on give it in full.")
+		fmt.Fprintln(tw, "  A combination that takes a train enters the envelope below with its train at the train's worst position (its cases placed by span in their worst arrangement there); the trains further on give it in full.")
 	}
 	tw.Flush()
 	fmt.Fprintf(tw, "\nEnvelope over every combination%s (%s solution)\n", spanWords(r.Envelope.Spans), r.Envelope.Solution)

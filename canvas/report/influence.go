@@ -211,7 +211,7 @@ func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *mo
 		}
 		tw.Flush()
 		for _, c := range tr.Combinations {
-			fmt.Fprintf(w, "  in combination %q, factor %s on top of its cases (exact solution, every span loaded)\n", c.Combination, units.FormatNumber(c.Factor))
+			fmt.Fprintf(w, "  in combination %q, factor %s on top of its cases (exact solution; those placed by span in the worst arrangement at each point)\n", c.Combination, units.FormatNumber(c.Factor))
 			writeWorst(tw, c.Worst, m.Length(), u)
 			tw.Flush()
 		}

@@ -31,14 +31,28 @@ type TrainResult struct {
 }
 
 // TrainCombination is a combination that takes a train with a factor:
-// at every station, the combination's cases (exact solution, every span
-// loaded) plus the factor times the train's largest or smallest value, and
-// the extremes of that over the member.
+// at every station, the combination's cases (exact solution, the worst
+// arrangement of those placed by span) plus the factor times the train's
+// largest or smallest value, and the extremes of that over the member.
 type TrainCombination struct {
 	Combination string
 	Factor      float64
 	Envelope    *moving.Envelope
 	Worst       []QuantityWorst
+	// solutions are the model's combinations solved, for the arrangement
+	// of the cases placed by span (Loaded); index is this one's.
+	solutions *fem.CombinationSolutions
+	index     int
+	// onLeft are the extremes at stations where the field jumps that are
+	// read just left of the station; the others are read on its right.
+	onLeft []sideRead
+}
+
+// sideRead is the largest (upper) or smallest value of quantity q (an
+// index into moving.EnvelopeQuantities) at station s.
+type sideRead struct {
+	q, s  int
+	upper bool
 }
 
 // TrainExtreme is an extreme of a quantity under a train: its value (SI),
@@ -108,29 +122,30 @@ func trainResult(p *storage.Project, i int, in *moving.Influence, mesh fem.Mesh,
 }
 
 // trainCombinations are the combinations of p that take train i, each
-// with train i's envelope e factored on top of its cases (exact solution,
-// every span loaded). Where the cases' field jumps at a station (the shear
-// force at a support), the two sides are combined apart: the train's
+// with train i's envelope e factored on top of its cases (exact solution):
+// at each station the worst arrangement of its cases placed by span for
+// the largest value and for the smallest, the train's position and the
+// spans loaded being chosen apart (every span loaded can fall short: a
+// by-span load on one span of two with an axle on it gives more sagging
+// there than on both). Where the cases' field jumps at a station (the
+// shear force at a support), the two sides are combined apart: the train's
 // envelope is taken a little (sideShift of the length) either side of the
 // station, so its largest value meets the cases' field on the same side,
 // and the worse side is kept.
 func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem.Mesh, e *moving.Envelope) ([]TrainCombination, error) {
 	m := &p.Model
 	var out []TrainCombination
-	var exacts []*fem.Exact
+	var cs *fem.CombinationSolutions
 	var sides [2]*moving.Envelope
 	var at [2][]float64
-	for _, cb := range m.Combinations {
+	for ci, cb := range m.Combinations {
 		for _, tf := range cb.Trains {
 			if tf.Train != i {
 				continue
 			}
-			if exacts == nil {
-				member, err := fem.Prepare(m)
-				if err != nil {
-					return nil, err
-				}
-				if exacts, err = member.ExactLoadSets(); err != nil {
+			if cs == nil {
+				var err error
+				if cs, err = arrangedSolutions(m); err != nil {
 					return nil, fmt.Errorf("combination %q with its train: %w", cb.Name, err)
 				}
 				at = sideStations(e.Stations, m.Length())
@@ -140,60 +155,60 @@ func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem
 					}
 				}
 			}
-			factors := make([]float64, len(exacts))
-			for _, cf := range cb.Factors {
-				factors[cf.Case] += cf.Factor
-			}
-			own, err := fem.CombineExact(exacts, factors)
-			if err != nil {
-				return nil, err
-			}
-			reactions := own.Reactions()
-			baseReactions := make([]float64, len(e.Reactions))
-			for k, re := range e.Reactions {
-				baseReactions[k] = reactions[re.Support].Force[re.Motion]
-			}
-			base := func(stations []float64, side fem.Side) [][]float64 {
-				b := make([][]float64, len(moving.EnvelopeQuantities))
-				for q, qty := range moving.EnvelopeQuantities {
-					b[q] = make([]float64, len(stations))
-					for s, x := range stations {
-						f := own.At(x, side)
-						b[q][s] = qty.Of(&f)
+			// The cases at the stations on one side, every quantity's
+			// largest and smallest over the arrangements, with the
+			// reactions when asked.
+			base := func(stations []float64, side fem.Side, reactions bool) moving.Base {
+				nq := len(moving.EnvelopeQuantities)
+				b := moving.Base{Max: make([][]float64, nq), Min: make([][]float64, nq)}
+				for q := range nq {
+					b.Max[q], b.Min[q] = make([]float64, len(stations)), make([]float64, len(stations))
+				}
+				for s, x := range stations {
+					lo, hi := cs.Arranged(ci, moving.EnvelopeQuantities, x, side)
+					for q := range nq {
+						b.Max[q][s], b.Min[q][s] = hi[q].Value, lo[q].Value
+					}
+				}
+				if reactions {
+					for _, re := range e.Reactions {
+						lo, hi := cs.ArrangedReaction(ci, re.Support, re.Motion)
+						b.MaxReactions, b.MinReactions = append(b.MaxReactions, hi.Value), append(b.MinReactions, lo.Value)
 					}
 				}
 				return b
 			}
-			c := e.Combine(tf.Factor, base(e.Stations, fem.Right), baseReactions)
+			right := base(e.Stations, fem.Right, true)
+			c := e.Combine(tf.Factor, right)
 			// The cases' field on each side of the station itself; the
 			// train's a little beside it, which differs only by its
 			// uniform load over sideShift.
-			jumps := base(e.Stations, fem.Left)
-			left, right := sides[0].Combine(tf.Factor, jumps, nil), sides[1].Combine(tf.Factor, base(e.Stations, fem.Right), nil)
+			leftBase := base(e.Stations, fem.Left, false)
+			onLeft, onRight := sides[0].Combine(tf.Factor, leftBase), sides[1].Combine(tf.Factor, right)
+			tc := TrainCombination{Combination: cb.Name, Factor: tf.Factor, Envelope: c, solutions: cs, index: ci}
 			for q := range moving.EnvelopeQuantities {
 				scale := 0.0
-				for _, v := range c.Max[q] {
-					scale = max(scale, math.Abs(v))
+				for s := range e.Stations {
+					scale = max(scale, math.Abs(right.Max[q][s]), math.Abs(right.Min[q][s]))
 				}
 				for s := range e.Stations {
-					b := c.Max[q][s] - tf.Factor*e.Max[q][s] // the right side's field, if the factor is positive
-					if tf.Factor < 0 {
-						b = c.Max[q][s] - tf.Factor*e.Min[q][s]
-					}
-					if math.Abs(jumps[q][s]-b) <= 1e-12*scale {
+					if math.Abs(leftBase.Max[q][s]-right.Max[q][s]) <= 1e-12*scale && math.Abs(leftBase.Min[q][s]-right.Min[q][s]) <= 1e-12*scale {
 						continue // no jump: the station's own values hold
 					}
-					c.Max[q][s], c.MaxAt[q][s] = left.Max[q][s], left.MaxAt[q][s]
-					if right.Max[q][s] > c.Max[q][s] {
-						c.Max[q][s], c.MaxAt[q][s] = right.Max[q][s], right.MaxAt[q][s]
+					c.Max[q][s], c.MaxAt[q][s] = onLeft.Max[q][s], onLeft.MaxAt[q][s]
+					if onRight.Max[q][s] > c.Max[q][s] {
+						c.Max[q][s], c.MaxAt[q][s] = onRight.Max[q][s], onRight.MaxAt[q][s]
+					} else {
+						tc.onLeft = append(tc.onLeft, sideRead{q, s, true})
 					}
-					c.Min[q][s], c.MinAt[q][s] = left.Min[q][s], left.MinAt[q][s]
-					if right.Min[q][s] < c.Min[q][s] {
-						c.Min[q][s], c.MinAt[q][s] = right.Min[q][s], right.MinAt[q][s]
+					c.Min[q][s], c.MinAt[q][s] = onLeft.Min[q][s], onLeft.MinAt[q][s]
+					if onRight.Min[q][s] < c.Min[q][s] {
+						c.Min[q][s], c.MinAt[q][s] = onRight.Min[q][s], onRight.MinAt[q][s]
+					} else {
+						tc.onLeft = append(tc.onLeft, sideRead{q, s, false})
 					}
 				}
 			}
-			tc := TrainCombination{Combination: cb.Name, Factor: tf.Factor, Envelope: c}
 			// The combination at points off the stations, for its peaks
 			// there (no support lies between stations: no jump to side).
 			probe := func(xs []float64) *moving.Envelope {
@@ -201,7 +216,7 @@ func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem
 				if err != nil {
 					return nil
 				}
-				return at.Combine(tf.Factor, base(xs, fem.Right), nil)
+				return at.Combine(tf.Factor, base(xs, fem.Right, false))
 			}
 			for k, q := range moving.EnvelopeQuantities {
 				hi, lo := c.Worst(q)
@@ -217,6 +232,38 @@ func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem
 		}
 	}
 	return out, nil
+}
+
+// arrangedSolutions are the load sets of m's combinations, every case and
+// every span share of a case placed by span, solved exactly.
+func arrangedSolutions(m *fem.Model) (*fem.CombinationSolutions, error) {
+	member, err := fem.Prepare(m)
+	if err != nil {
+		return nil, err
+	}
+	cs, err := member.SolveCombinations(member.Mesh())
+	if err != nil {
+		return nil, err
+	}
+	if err := cs.SolveExact(member); err != nil {
+		return nil, err
+	}
+	return cs, nil
+}
+
+// Loaded is the arrangement of the combination's cases placed by span
+// that gives its largest (upper) or smallest value of q at x, under the
+// train's governing position there: the spans loaded.
+func (c TrainCombination) Loaded(q fem.Quantity, x float64, upper bool) fem.Governing {
+	side := fem.Right
+	if s := slices.Index(c.Envelope.Stations, x); s >= 0 && slices.Contains(c.onLeft, sideRead{slices.Index(moving.EnvelopeQuantities, q), s, upper}) {
+		side = fem.Left
+	}
+	lo, hi := c.solutions.Arranged(c.index, []fem.Quantity{q}, x, side)
+	if upper {
+		return hi[0]
+	}
+	return lo[0]
 }
 
 // sideShift is how far, relative to the member, a station is moved to

@@ -393,18 +393,27 @@ func (e *Envelope) Nearest(p Placement) Placement {
 }
 
 // Combine is the envelope of a combination that takes the train with a
-// factor on top of fixed loads: base[q][s] is quantity q of
-// EnvelopeQuantities at station s under the fixed loads, already factored
-// (nil for none). A positive factor takes the train's largest value to the
-// combination's largest, a negative one its smallest, with the positions
-// that govern them. The reactions combine likewise with baseReactions (one
-// per entry of Reactions; nil for none). The load-case envelope merges a
-// train this way.
-func (e *Envelope) Combine(factor float64, base [][]float64, baseReactions []float64) *Envelope {
+// factor on top of other loads: base.Max[q][s] and base.Min[q][s] are the
+// largest and the smallest of quantity q of EnvelopeQuantities at station
+// s under the other loads, already factored (the same where they are
+// fixed; over the arrangements of loads placed by span where they are
+// not: the worst of the sum is the worst of each, as the train's position
+// and the spans loaded are chosen apart). A positive factor takes the
+// train's largest value to the combination's largest, a negative one its
+// smallest, with the positions that govern them. The reactions combine
+// likewise with base.MaxReactions and base.MinReactions (one per entry of
+// Reactions; nil for none). The load-case envelope merges a train this way.
+func (e *Envelope) Combine(factor float64, base Base) *Envelope {
 	out := *e
 	nq := len(EnvelopeQuantities)
 	out.Max, out.Min = make([][]float64, nq), make([][]float64, nq)
 	out.MaxAt, out.MinAt = make([][]int32, nq), make([][]int32, nq)
+	at := func(b [][]float64, q, s int) float64 {
+		if b == nil {
+			return 0
+		}
+		return b[q][s]
+	}
 	for q := range nq {
 		hi, lo, hiAt, loAt := e.Max[q], e.Min[q], e.MaxAt[q], e.MinAt[q]
 		if factor < 0 {
@@ -413,26 +422,31 @@ func (e *Envelope) Combine(factor float64, base [][]float64, baseReactions []flo
 		out.Max[q], out.Min[q] = make([]float64, len(e.Stations)), make([]float64, len(e.Stations))
 		out.MaxAt[q], out.MinAt[q] = slices.Clone(hiAt), slices.Clone(loAt)
 		for s := range e.Stations {
-			b := 0.0
-			if base != nil {
-				b = base[q][s]
-			}
-			out.Max[q][s], out.Min[q][s] = b+factor*hi[s], b+factor*lo[s]
+			out.Max[q][s], out.Min[q][s] = at(base.Max, q, s)+factor*hi[s], at(base.Min, q, s)+factor*lo[s]
 		}
 	}
 	out.Reactions = slices.Clone(e.Reactions)
 	for i := range out.Reactions {
 		r := &out.Reactions[i]
-		b := 0.0
-		if baseReactions != nil {
-			b = baseReactions[i]
+		var bHi, bLo float64
+		if base.MaxReactions != nil {
+			bHi, bLo = base.MaxReactions[i], base.MinReactions[i]
 		}
 		if factor < 0 {
 			r.Max, r.Min, r.MaxAt, r.MinAt = r.Min, r.Max, r.MinAt, r.MaxAt
 		}
-		r.Max, r.Min = b+factor*r.Max, b+factor*r.Min
+		r.Max, r.Min = bHi+factor*r.Max, bLo+factor*r.Min
 	}
 	return &out
+}
+
+// Base is what a combination's other loads give at an envelope's stations
+// and supports, for Combine: per quantity of EnvelopeQuantities and
+// station, their largest and smallest value, and per entry of Reactions
+// their largest and smallest reaction; nil for none.
+type Base struct {
+	Max, Min                   [][]float64
+	MaxReactions, MinReactions []float64
 }
 
 // AllPositions is the number of positions in every direction together.

@@ -260,7 +260,7 @@ func TestCombinedEnvelope(t *testing.T) {
 		}
 	}
 	for _, factor := range []float64{1.5, -0.8} {
-		c := e.Combine(factor, base, nil)
+		c := e.Combine(factor, Base{Max: base, Min: base})
 		for q, qty := range EnvelopeQuantities {
 			for s, x := range stations {
 				// The largest of base + factor·train over the positions is
