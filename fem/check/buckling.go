@@ -236,6 +236,9 @@ func bucklingChecks(p *Probe, o Options) []Result {
 			utilisation, force, o.Units.Format(units.Position, where), p.fromWhat(), o.Units.Format(units.Force, r.Limit),
 			c.factor.Design, c.factor.Theoretical, o.Units.Format(units.Force, theoretical), c.note, c.factor.Source,
 			p.feBeside(o, units.Force, compression, p.fe.compression[k]))
+		if compression-h.least[k] > 1e-6*compression {
+			r.Message += "The compression varies along this part (self-weight or loads along it): the largest is taken as acting all along, which is conservative. "
+		}
 		if stepped {
 			r.Message += "The section changes along this part: the smallest EI is used, which is conservative. "
 		}

@@ -442,3 +442,41 @@ func TestBucklingOfAColumnWithAHinge(t *testing.T) {
 		}
 	}
 }
+
+// A column whose compression varies along it, as a standing column's under
+// its own weight, is checked with its largest compression against the
+// Euler load of a constant force, which is conservative (a flagpole fixed
+// at its foot buckles under its own weight when the whole weight reaches
+// 7.84·EI/L², 3.2 times π²EI/(2L)²: Timoshenko & Gere, Theory of Elastic
+// Stability, ch. 2, buckling of a bar under distributed axial load, from
+// memory), and the message must say so; a column under an end load alone,
+// whose compression is the same all along, must not.
+func TestBucklingSaysWhenTheCompressionVaries(t *testing.T) {
+	const L, g = 3.0, 9.80665
+	cases := []struct {
+		name    string
+		gravity [2]float64
+		load    float64
+		varies  bool
+	}{
+		{"own weight", [2]float64{-g, 0}, 0, true},
+		{"own weight and an end load", [2]float64{-g, 0}, -10e3, true},
+		{"an end load", [2]float64{}, -10e3, false},
+	}
+	for _, c := range cases {
+		m := beam(L, []fem.Support{{X: 0, Kind: fem.Fixed}}, 0)
+		m.Gravity = c.gravity
+		if c.load != 0 {
+			m.PointLoads = []fem.PointLoad{{X: L, Axial: c.load}}
+		}
+		s, e := solveBoth(t, &m)
+		r := find(t, Run(&m, s, e, Options{}), "Buckling")
+		want := -c.load + 7850*g*0.02*L*math.Abs(c.gravity[0])/g // the weight ρgAL at the foot, and the end load
+		if !near(r.Value, want, 1e-9) {
+			t.Errorf("%s: compression %g N, want %g N", c.name, r.Value, want)
+		}
+		if got := strings.Contains(r.Message, "varies along this part"); got != c.varies {
+			t.Errorf("%s: says the compression varies: %v, want %v: %s", c.name, got, c.varies, r.Message)
+		}
+	}
+}
