@@ -310,11 +310,13 @@ func checkNames(per [][]check.Result) []string {
 // patternSteps bounds how often patterned moves to a check's new place.
 const patternSteps = 4
 
-// patterned makes the stress and deflection checks of combination k
-// (results, every span loaded) those of the worst arrangement of the
-// spans its cases placed by span load: with every span loaded the moment
-// over a support is not the largest (the two spans beside it loaded give
-// more), nor a span's deflection (it and every second span loaded). At the
+// patterned makes the stress, deflection and buckling checks of
+// combination k (results, every span loaded) those of the worst
+// arrangement of the spans its cases placed by span load: with every span
+// loaded the moment over a support is not the largest (the two spans
+// beside it loaded give more), nor a span's deflection (it and every
+// second span loaded), nor a column's compression where axial loads on
+// other spans relieve it. At the
 // check's place it loads the spans whose share pushes the checked value
 // further the way it goes there, solves and checks that arrangement, and
 // again from that check's place while the arrangement changes; a check
@@ -348,13 +350,13 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 	fields := func(fixed bool, j int, x float64) fem.Fields { return field(fixed, j).At(x, fem.Right) }
 	for i := range results {
 		r := results[i]
-		if r.Kind != check.Design || (r.Code != check.CodeStress && r.Code != check.CodeDeflection) {
+		if r.Kind != check.Design || (r.Code != check.CodeStress && r.Code != check.CodeDeflection && r.Code != check.CodeBuckling) {
 			continue
 		}
 		// value is the checked quantity of one load set at x: the
 		// deflection from the line the check measures it from
-		// (check.DeflectionLine), or the stress in the bottom fibre (top
-		// when bottom is false).
+		// (check.DeflectionLine), the compression −N, or the stress in the
+		// bottom fibre (top when bottom is false).
 		from, to := r.Span[0], r.Span[1]
 		lines := map[int][2]float64{} // per load set: the fixed loads' at −1, share j's at j
 		line := func(fixed bool, j int) [2]float64 {
@@ -379,6 +381,9 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 				return fields(fixed, j, x).Deflection - l[0] - (l[1]-l[0])*(x-from)/(to-from)
 			}
 			f := fields(fixed, j, x)
+			if r.Code == check.CodeBuckling {
+				return -f.AxialForce
+			}
 			if bottom {
 				return f.AxialStress + f.BendingStress
 			}
@@ -442,19 +447,23 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 // worstArrangement is the arrangement of the shares combination k takes
 // (indices into its Loads.Shares, in order) that gives the largest value
 // in size of check r's quantity on its stretch, in closed form: the
-// combined stress, or the deflection with chord (the line the check
-// measures it from, at the stretch's ends) taken off that of the loads
-// always on; the shares' deflections are taken as they are, which is how
-// the check measures them where the stretch ends at supports.
+// combined stress, the compression (the smallest axial force), or the
+// deflection with chord (the line the check measures it from, at the
+// stretch's ends) taken off that of the loads always on; the shares'
+// deflections are taken as they are, which is how the check measures them
+// where the stretch ends at supports.
 func (c *Cases) worstArrangement(k int, r check.Result, chord [2]float64) []int {
 	cs := c.Solutions
 	q := fem.QCombinedStress
-	if r.Code == check.CodeDeflection {
+	switch r.Code {
+	case check.CodeDeflection:
 		q = fem.QDeflection
+	case check.CodeBuckling:
+		q = fem.QAxialForce
 	}
 	env := cs.Within(k, r.Span[0], r.Span[1], chord)
 	g := env[q].Max
-	if math.Abs(env[q].Min.Value) > math.Abs(g.Value) {
+	if q == fem.QAxialForce || math.Abs(env[q].Min.Value) > math.Abs(g.Value) {
 		g = env[q].Min
 	}
 	var on []int

@@ -357,3 +357,36 @@ func TestOverhangCheckAfterAHeaveTakesTheWorstArrangement(t *testing.T) {
 	}
 	t.Error("no deflection check of the overhang")
 }
+
+// The buckling check takes the worst arrangement of the spans too. A
+// member pinned at 0 (the only support along its axis) on rollers at 5 m
+// and 10 m, under an imposed case placed by span with an axial push of
+// 10 kN at x = 4 m and a pull of 6 kN at x = 8 m: the axial force at x is
+// the sum of the axial loads beyond x (statics of a bar held at one end,
+// Gere & Goodno, Mechanics of Materials, ch. 2, from memory), so the first
+// span carries 10 − 6 = 4 kN of compression with both spans loaded, but
+// 10 kN with the first span alone loaded. Its column (0 to 5 m, pinned at
+// both ends, K = 1) must be checked for 10 kN.
+func TestBucklingCheckTakesTheWorstArrangement(t *testing.T) {
+	m := fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 10, Section: fem.Section{Area: 0.001, SecondMoment: 1e-7, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: 2e11, Allowable: 2.5e8}}},
+		Supports: []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 5, Kind: fem.Roller}, {X: 10, Kind: fem.Roller}},
+		Cases: []fem.LoadCase{{Name: "imposed", BySpan: true,
+			PointLoads: []fem.PointLoad{{X: 4, Axial: -10e3}, {X: 8, Axial: 6e3}}}},
+		Combinations: []fem.Combination{{Name: "C", Kind: fem.Strength, Factors: []fem.CaseFactor{{Case: 0, Factor: 1}}}},
+	}
+	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
+	if err != nil || a.Err != nil {
+		t.Fatalf("%v, %v", err, a.Err)
+	}
+	for _, r := range a.Checks {
+		if r.Code == check.CodeBuckling && r.Span == [2]float64{0, 5} {
+			if math.Abs(r.Value-10e3) > 1e-9*10e3 || !strings.Contains(r.Name, "imposed on span 1)") {
+				t.Errorf("%s: %.12g N; want 10 kN of compression with the imposed case on span 1", r.Name, r.Value)
+			}
+			return
+		}
+	}
+	t.Error("no buckling check of the first span")
+}

@@ -161,7 +161,9 @@ type column struct {
 // inside the member, the whole member is one column with its end
 // conditions. With supports inside, each span between supports is taken as
 // pinned–pinned (K = 1), conservative because continuity and end fixity only
-// shorten the buckling length; overhangs are not recognised.
+// shorten the buckling length; overhangs are not recognised, nor a column
+// with a hinge inside, which lengthens the buckling length beyond what
+// its ends give.
 func columns(m *fem.Model) []column {
 	L := m.Length()
 	tol := 1e-9 * L
@@ -170,18 +172,30 @@ func columns(m *fem.Model) []column {
 		holds := s.Holds(fem.Transverse) || s.Holds(fem.Rotation)
 		inside = inside || (holds && s.X > tol && s.X < L-tol)
 	}
+	// hinged says a hinge inside [a, b] frees the member to turn there.
+	hinged := func(a, b float64) bool {
+		return slices.ContainsFunc(m.Hinges, func(h fem.Hinge) bool { return h.X > a+tol && h.X < b-tol })
+	}
+	const hingeNote = "a hinge inside it frees the member to turn there, which makes its buckling length longer than its ends give"
 	if !inside {
 		a, b := endConditionAt(m, 0), endConditionAt(m, L)
 		k, ok := LookUpEffectiveLength(a, b)
-		return []column{{a: 0, b: L, factor: k, known: ok, note: fmt.Sprintf("ends %s and %s", a, b)}}
+		c := column{a: 0, b: L, factor: k, known: ok, note: fmt.Sprintf("ends %s and %s", a, b)}
+		if hinged(0, L) {
+			c.known, c.note = false, c.note+"; "+hingeNote
+		}
+		return []column{c}
 	}
 	pinned, _ := LookUpEffectiveLength(Pinned, Pinned)
 	var out []column
 	for _, st := range stretches(m, false) {
 		c := column{a: st.a, b: st.b, factor: pinned, known: !st.overhangs,
 			note: "a span between supports, taken as pinned at both ends (conservative: continuity over the supports only helps)"}
-		if st.overhangs {
+		switch {
+		case st.overhangs:
 			c.note = "an overhang beyond a support, whose rotation is not held: not a standard case"
+		case hinged(st.a, st.b):
+			c.known, c.note = false, "a span between supports; "+hingeNote
 		}
 		out = append(out, c)
 	}
@@ -222,6 +236,9 @@ func bucklingChecks(p *Probe, o Options) []Result {
 			utilisation, force, o.Units.Format(units.Position, where), p.fromWhat(), o.Units.Format(units.Force, r.Limit),
 			c.factor.Design, c.factor.Theoretical, o.Units.Format(units.Force, theoretical), c.note, c.factor.Source,
 			p.feBeside(o, units.Force, compression, p.fe.compression[k]))
+		if compression-h.least[k] > 1e-6*compression {
+			r.Message += "The compression varies along this part (self-weight or loads along it): the largest is taken as acting all along, which is conservative. "
+		}
 		if stepped {
 			r.Message += "The section changes along this part: the smallest EI is used, which is conservative. "
 		}

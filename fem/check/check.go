@@ -213,8 +213,10 @@ type peaks struct {
 	stress []peak
 	// deflection holds per part the largest |w − chord| (see chordLine).
 	deflection []peak
-	// compression holds per column the largest −N.
+	// compression holds per column the largest −N, and least its
+	// smallest (negative where the column is in tension somewhere).
 	compression []peak
+	least       []float64
 }
 
 // Probe holds what the checks read from the solutions, in closed form: the
@@ -274,7 +276,10 @@ func (p *Probe) reset() {
 // newPeaks are empty peaks, each at the start of its part of the member.
 func (p *Probe) newPeaks() peaks {
 	k := peaks{stress: make([]peak, len(p.model.Segments)), deflection: make([]peak, len(p.parts)),
-		compression: make([]peak, len(p.columns))}
+		compression: make([]peak, len(p.columns)), least: make([]float64, len(p.columns))}
+	for i := range k.least {
+		k.least[i] = math.Inf(1)
+	}
 	for i, seg := range p.model.Segments {
 		k.stress[i].x = seg.Start
 	}
@@ -342,6 +347,7 @@ func (p *Probe) Join(later fem.Visitor) {
 		if pk.value > a.compression[k].value {
 			a.compression[k] = pk
 		}
+		a.least[k] = min(a.least[k], b.least[k])
 	}
 }
 
@@ -435,24 +441,28 @@ func endsOnly(v *fem.Interval, a, b float64) (lo, hi fem.Point) {
 	return lo, hi
 }
 
-// takeCompression takes the largest −N on v for column k: at an end where
-// N is linear on v (the elements of fem), as Range would give it, else from
-// Range.
+// takeCompression takes the largest and the smallest −N on v for column
+// k: at the ends where N is linear on v (the elements of fem), as Range
+// would give them, else from Range.
 func (p *peaks) takeCompression(k int, v *fem.Interval) {
 	if n, ok := v.Polynomial(fem.QAxialForce); ok && n[2] == 0 && n[3] == 0 && n[4] == 0 && n[5] == 0 {
-		at, least := v.X(0), v.End(0).AxialForce
+		at, least, most := v.X(0), v.End(0).AxialForce, v.End(0).AxialForce
 		if b := v.End(1).AxialForce; b < least {
 			at, least = v.X(1), b
+		} else {
+			most = b
 		}
 		if -least > p.compression[k].value {
 			p.compression[k] = peak{-least, at}
 		}
+		p.least[k] = min(p.least[k], -most)
 		return
 	}
-	lo, _ := v.Range(fem.QAxialForce)
+	lo, hi := v.Range(fem.QAxialForce)
 	if n := -lo.Value; n > p.compression[k].value {
 		p.compression[k] = peak{n, lo.X}
 	}
+	p.least[k] = min(p.least[k], -hi.Value)
 }
 
 // cover finds, element by element, which of a list of parts of the member

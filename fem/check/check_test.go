@@ -400,3 +400,83 @@ func TestDeflectionOnAFoundationSaysSo(t *testing.T) {
 		}
 	}
 }
+
+// A hinge inside a column frees it to turn there, which no end condition
+// of Table C-A-7.1 allows for, and lowers its buckling load below the
+// tabled case of its ends. A column fixed at the base and pinned at the
+// top with a pure hinge at mid-height buckles when tan z = 2z, z = kL/2 ≈
+// 1.166, k² = P/EI: the lower half is a cantilever under the end load P
+// and a tip force P·δ/(L/2) from the upper half, a link, whose tip
+// deflection is H·(tan ka − ka)/(P·k) (the cantilever under an axial and a
+// lateral end load, Timoshenko & Gere, Theory of Elastic Stability, ch. 1,
+// from memory). So Pcr = 4z²·EI/L² ≈ 5.43·EI/L², a third of the 15.4·EI/L²
+// of K = 0.8. Fixed at both ends with a hinge at mid-length, each half
+// sways as a cantilever: Pcr = π²EI/L² (K = 1, against 0.65). The check
+// must not use the tabled factor of the ends: it reports the compression
+// and asks for the effective length by hand, naming the hinge.
+func TestBucklingOfAColumnWithAHinge(t *testing.T) {
+	const L = 4.0
+	cases := []struct {
+		name     string
+		supports []fem.Support
+		hinges   []fem.Hinge
+		at       float64
+	}{
+		{"fixed–hinge–pinned", []fem.Support{{X: 0, Kind: fem.Fixed}, {X: L, Kind: fem.Roller}}, []fem.Hinge{{X: L / 2}}, L},
+		{"fixed–hinge–fixed", []fem.Support{{X: 0, Kind: fem.Fixed}, {X: L, Kind: fem.Fixed}}, []fem.Hinge{{X: L / 2}}, L / 4},
+		{"semi-rigid joint", []fem.Support{{X: 0, Kind: fem.Fixed}, {X: L, Kind: fem.Fixed}}, []fem.Hinge{{X: L / 2, Stiffness: 1e6}}, L / 4},
+		{"a span with a hinge", []fem.Support{{X: 0, Kind: fem.Fixed}, {X: L, Kind: fem.Roller}, {X: 2 * L, Kind: fem.Roller}}, []fem.Hinge{{X: 1.5 * L}}, 2 * L},
+	}
+	for _, c := range cases {
+		m := beam(c.supports[len(c.supports)-1].X, c.supports, 0)
+		m.Hinges = c.hinges
+		m.PointLoads = []fem.PointLoad{{X: c.at, Axial: -10e3}}
+		s, e := solveBoth(t, &m)
+		for _, r := range Run(&m, s, e, Options{}) {
+			if r.Code != CodeBuckling || r.Span[0] >= c.hinges[0].X || r.Span[1] <= c.hinges[0].X {
+				continue
+			}
+			if r.Status != Info || r.Limit != 0 || !strings.Contains(r.Message, "hinge") {
+				t.Errorf("%s: %s: %v, limit %g: %s", c.name, r.Name, r.Status, r.Limit, r.Message)
+			}
+		}
+	}
+}
+
+// A column whose compression varies along it, as a standing column's under
+// its own weight, is checked with its largest compression against the
+// Euler load of a constant force, which is conservative (a flagpole fixed
+// at its foot buckles under its own weight when the whole weight reaches
+// 7.84·EI/L², 3.2 times π²EI/(2L)²: Timoshenko & Gere, Theory of Elastic
+// Stability, ch. 2, buckling of a bar under distributed axial load, from
+// memory), and the message must say so; a column under an end load alone,
+// whose compression is the same all along, must not.
+func TestBucklingSaysWhenTheCompressionVaries(t *testing.T) {
+	const L, g = 3.0, 9.80665
+	cases := []struct {
+		name    string
+		gravity [2]float64
+		load    float64
+		varies  bool
+	}{
+		{"own weight", [2]float64{-g, 0}, 0, true},
+		{"own weight and an end load", [2]float64{-g, 0}, -10e3, true},
+		{"an end load", [2]float64{}, -10e3, false},
+	}
+	for _, c := range cases {
+		m := beam(L, []fem.Support{{X: 0, Kind: fem.Fixed}}, 0)
+		m.Gravity = c.gravity
+		if c.load != 0 {
+			m.PointLoads = []fem.PointLoad{{X: L, Axial: c.load}}
+		}
+		s, e := solveBoth(t, &m)
+		r := find(t, Run(&m, s, e, Options{}), "Buckling")
+		want := -c.load + 7850*g*0.02*L*math.Abs(c.gravity[0])/g // the weight ρgAL at the foot, and the end load
+		if !near(r.Value, want, 1e-9) {
+			t.Errorf("%s: compression %g N, want %g N", c.name, r.Value, want)
+		}
+		if got := strings.Contains(r.Message, "varies along this part"); got != c.varies {
+			t.Errorf("%s: says the compression varies: %v, want %v: %s", c.name, got, c.varies, r.Message)
+		}
+	}
+}
