@@ -250,6 +250,12 @@ func TestInfluenceCommandMisuse(t *testing.T) {
 		{[]string{"../../testdata/moving/runway.json", "--quantity", "M", "--at", "1", "--train", "0", "--out", "x.png"}, 2, "--train 0: count the trains from 1"},
 		{[]string{"../../testdata/demo.json", "--quantity", "sigma_combined", "--at", "1"}, 1, "not linear"},
 		{[]string{"../../testdata/demo.json", "--quantity", "reaction", "--support", "2", "--motion", "rotation"}, 1, "does not hold the rotation"},
+		// In the units asked for: it said "x = 30.48 m is not on the member (0 to
+		// 4 m)" for --at 100 under US (100 ft = 30.48 m, 4 m = 13.12335958 ft;
+		// 1 ft = 0.3048 m exactly, NIST SP 811 Appendix B).
+		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "M", "--at", "100"}, 1, "x = 100 ft is not on the member (0 to 13.12335958 ft)"},
+		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "M", "--at", "-2 in"}, 1, "x = -2 in is not on the member (0 to 13.12335958 ft)"},
+		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "reaction", "--support", "2", "--motion", "rotation"}, 1, "support 2 (roller at x = 13.12 ft) does not hold the rotation"},
 	} {
 		code, _, stderr := runStave(t, append([]string{"influence"}, c.args...)...)
 		if code != c.code || !strings.Contains(stderr, c.says) {
