@@ -45,7 +45,7 @@ const (
 	ThermalExpansion                   // 1/K / 1/°F
 	TemperatureChange                  // K / °F (differences)
 	TranslationalStiffness             // kN/m / kip/in
-	RotationalStiffness                // kN·m/rad / kip·in/rad
+	RotationalStiffness                // kN·m/rad / kip·ft/rad, as the moments
 	Acceleration                       // m/s² / ft/s²
 	Energy                             // J / kip·in
 	FoundationModulus                  // kN/m² / kip/ft²: force per length of member per deflection
@@ -147,7 +147,7 @@ var USCustomary = System{Name: "US", Units: [kindCount]Unit{
 	ThermalExpansion:       {"1/°F", 1 / fahrenheitStep},
 	TemperatureChange:      {"°F", fahrenheitStep},
 	TranslationalStiffness: {"kip/in", kip / inch},
-	RotationalStiffness:    {"kip·in/rad", kip * inch},
+	RotationalStiffness:    {"kip·ft/rad", kip * foot},
 	Acceleration:           {"ft/s²", foot},
 	Energy:                 {"kip·in", kip * inch},
 	FoundationModulus:      {"kip/ft²", kip / (foot * foot)},
@@ -171,7 +171,7 @@ var extraUnits = map[Kind][]Unit{
 	ThermalExpansion:       {{"1/°C", 1}},
 	TemperatureChange:      {{"°C", 1}},
 	TranslationalStiffness: {{"N/m", 1}, {"kN/mm", 1e6}, {"lbf/in", poundForce / inch}},
-	RotationalStiffness:    {{"N·m/rad", 1}, {"kip·ft/rad", kip * foot}},
+	RotationalStiffness:    {{"N·m/rad", 1}, {"kip·in/rad", kip * inch}},
 	Acceleration:           {{"g", standardGravity}},
 	Energy:                 {{"kJ", 1e3}, {"N·m", 1}, {"ft·lbf", foot * poundForce}},
 	FoundationModulus:      {{"N/m²", 1}, {"MN/m²", 1e6}, {"kip/in²", kip / (inch * inch)}, {"lbf/in²", poundForce / (inch * inch)}},

@@ -38,9 +38,11 @@ func TestFactorsAgainstNIST811(t *testing.T) {
 		{"kip/ft", us.Unit(LineLoad).ToSI, 1.459390e4, 5e-7},
 		// B.8: pound-force per inch (lbf/in) to newton per metre = 1.751 268 E+02.
 		{"kip/in", us.Unit(TranslationalStiffness).ToSI, 1.751268e5, 5e-7},
+		// B.8: pound-force foot (lbf·ft) to newton metre = 1.355 818 E+00.
+		{"kip·ft/rad", us.Unit(RotationalStiffness).ToSI, 1.355818e3, 5e-7},
 		// B.8: pound-force inch (lbf·in) to newton metre = 1.129 848 E-01.
-		{"kip·in/rad", us.Unit(RotationalStiffness).ToSI, 1.129848e2, 5e-7},
 		{"kip·in energy", us.Unit(Energy).ToSI, 1.129848e2, 5e-7},
+		{"kip·in/rad typed", extra(t, RotationalStiffness, "kip·in/rad").ToSI, 1.129848e2, 5e-7},
 		// B.8: square inch (in²) to square metre = 6.4516 E-04, exact.
 		{"in²", us.Unit(Area).ToSI, 6.4516e-4, 1e-15},
 		// B.8: inch to the fourth power (in⁴) to metre to the fourth power = 4.162 314 E-07.
@@ -68,6 +70,21 @@ func TestFactorsAgainstNIST811(t *testing.T) {
 		if rel := math.Abs(c.got-c.want) / c.want; rel > c.relative {
 			t.Errorf("%s: factor %.16g, NIST SP 811 gives %.16g (relative difference %.2g > %.1g)",
 				c.name, c.got, c.want, rel, c.relative)
+		}
+	}
+}
+
+// A stiffness reads in the units of what it relates: a translational
+// spring in force per deflection unit, a rotational one in moment per
+// radian, so a spring's force k·w and moment k·θ come out in the units the
+// reactions are printed in (dimensional consistency, common practice).
+func TestStiffnessUnitsFollowForceMomentAndDeflection(t *testing.T) {
+	for _, s := range Systems() {
+		if got, want := s.Unit(RotationalStiffness).Symbol, s.Unit(Moment).Symbol+"/rad"; got != want {
+			t.Errorf("%s: rotational stiffness in %s, want %s", s.Name, got, want)
+		}
+		if got, want := s.Unit(RotationalStiffness).ToSI, s.Unit(Moment).ToSI; math.Abs(got-want) > 1e-15*want {
+			t.Errorf("%s: rotational stiffness factor %g, want the moment's %g", s.Name, got, want)
 		}
 	}
 }
