@@ -152,6 +152,12 @@ type csvTable struct {
 	lineLoad float64 // the ground columns' ToSI
 }
 
+// csvFigures is the significant figures of a value in the table: the
+// conversion to display units (a division by 0.3048 for feet) is good to
+// about 16, and the shortest exact form of its result shows that last
+// figure's noise, 13.999999999999998 ft for a node typed at 14 ft.
+const csvFigures = 15
+
 // csvChunkRows is about how many rows one chunk of a table holds: four
 // chunks' buffers, some megabytes, are what the table holds in memory.
 const csvChunkRows = 4096
@@ -235,21 +241,21 @@ func (t *csvTable) rows(buf []byte, from, to int) []byte {
 			if t.e != nil {
 				el.Exact.At(xi, &ex)
 			}
-			buf = strconv.AppendFloat(buf, x/t.position, 'g', -1, 64)
+			buf = strconv.AppendFloat(buf, x/t.position, 'g', csvFigures, 64)
 			for i, q := range t.qs {
 				buf = append(buf, ',')
-				buf = strconv.AppendFloat(buf, q.Of(&fe)/t.divisor[i], 'g', -1, 64)
+				buf = strconv.AppendFloat(buf, q.Of(&fe)/t.divisor[i], 'g', csvFigures, 64)
 				if t.e != nil {
 					buf = append(buf, ',')
-					buf = strconv.AppendFloat(buf, q.Of(&ex)/t.divisor[i], 'g', -1, 64)
+					buf = strconv.AppendFloat(buf, q.Of(&ex)/t.divisor[i], 'g', csvFigures, 64)
 				}
 			}
 			for i, g := range t.ground {
 				buf = append(buf, ',')
-				buf = strconv.AppendFloat(buf, -moduli[i]*g.displacement(&fe)/t.lineLoad, 'g', -1, 64)
+				buf = strconv.AppendFloat(buf, -moduli[i]*g.displacement(&fe)/t.lineLoad, 'g', csvFigures, 64)
 				if t.e != nil {
 					buf = append(buf, ',')
-					buf = strconv.AppendFloat(buf, -moduli[i]*g.displacement(&ex)/t.lineLoad, 'g', -1, 64)
+					buf = strconv.AppendFloat(buf, -moduli[i]*g.displacement(&ex)/t.lineLoad, 'g', csvFigures, 64)
 				}
 			}
 			buf = append(buf, '\n')

@@ -163,3 +163,35 @@ func TestWriteCSVGround(t *testing.T) {
 		t.Error("a model without foundations has a ground column")
 	}
 }
+
+// A place typed in feet reads back in feet: a member of 14 ft (4.2672 m,
+// 1 ft = 0.3048 m exactly, NIST SP 811 Appendix B) on 4 elements has its
+// nodes at 0, 3.5, 7, 10.5 and 14 ft, which 4.2672 / 0.3048 in floating
+// point writes 13.999999999999998. The table writes 15 significant figures,
+// more than the conversion is good to.
+func TestWriteCSVRoundTripsFeet(t *testing.T) {
+	ft, _ := units.USCustomary.Parse(units.Position, "14 ft")
+	steel := fem.Material{Name: "steel", Elastic: 200e9}
+	m := &fem.Model{
+		Segments:   []fem.Segment{{Start: 0, End: ft, Section: fem.Section{Area: 5e-3, SecondMoment: 8e-5, FibreDistance: 0.15}, Material: steel}},
+		Supports:   []fem.Support{{X: 0, Kind: fem.Fixed}},
+		PointLoads: []fem.PointLoad{{X: ft, Transverse: -10e3}},
+		Mesh:       fem.MeshSettings{Elements: 4},
+	}
+	in := solved(t, m)
+	var buf bytes.Buffer
+	if err := WriteCSV(&buf, in.Solution, in.Exact, units.USCustomary, 1, nil); err != nil {
+		t.Fatal(err)
+	}
+	var xs []string
+	for _, line := range strings.Split(buf.String(), "\n") {
+		if line == "" || strings.HasPrefix(line, "#") || strings.HasPrefix(line, "x ") {
+			continue
+		}
+		xs = append(xs, strings.Split(line, ",")[0])
+	}
+	want := []string{"0", "3.5", "3.5", "7", "7", "10.5", "10.5", "14"}
+	if !slices.Equal(xs, want) {
+		t.Errorf("x column %q, want %q", xs, want)
+	}
+}

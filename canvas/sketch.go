@@ -779,7 +779,8 @@ func (b *builder) scaleBar(top float32) {
 		return
 	}
 	target := 110 / b.v.Scale * perSI // display units in ~110 px
-	length := niceBelow(target) / perSI
+	nice := niceBelow(target)         // the label, in display units
+	length := nice / perSI
 	px := float32(length * b.v.Scale)
 	x1 := b.v.Width - 14
 	x0 := x1 - px
@@ -787,7 +788,9 @@ func (b *builder) scaleBar(top float32) {
 	b.line(inkColour, 2, Point{x0, y}, Point{x1, y})
 	b.line(inkColour, 1, Point{x0, y - 4}, Point{x0, y + 4})
 	b.line(inkColour, 1, Point{x1, y - 4}, Point{x1, y + 4})
-	s := strconv.FormatFloat(b.u.ToDisplay(units.Position, length), 'g', -1, 64) + " " + b.u.Unit(units.Position).Symbol
+	// Written from nice, not converted back from length: 1.524 m / 0.3048 is
+	// 5.000000000000001 in floating point.
+	s := strconv.FormatFloat(nice, 'g', -1, 64) + " " + b.u.Unit(units.Position).Symbol
 	b.symbol(rect{x0, y - 4, x1, y + 4})
 	l := text1(s, smallSize, inkColour, false, labelSpot{(x0 + x1) / 2, y - 5, 0.5, 1})
 	l.plain = true

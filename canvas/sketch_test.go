@@ -145,3 +145,32 @@ func TestDeflectionLabelMatchesSummary(t *testing.T) {
 		}
 	}
 }
+
+// The scale bar reads a round length, 1, 2 or 5 × 10ⁿ in the display unit,
+// written as such: a bar of 5 ft is 1.524 m, and 1.524 / 0.3048 in floating
+// point is 5.000000000000001, which must not show (1 ft = 0.3048 m exactly,
+// NIST SP 811 Appendix B).
+func TestScaleBarLengthIsRound(t *testing.T) {
+	round := regexp.MustCompile(`^(0\.0*)?[125]0*( m| ft)$`)
+	plain := regexp.MustCompile(`^[0-9.]+ (m|ft)$`) // the bar, and the dimension lines' "6.000 m"
+	m := demoModel(4)
+	for _, u := range []units.System{units.SI, units.USCustomary} {
+		for _, scale := range []float64{0.37, 1.3, 4, 11, 17, 23.5, 40, 72, 100, 310, 1000, 4400} {
+			v := NewView(800, 600)
+			v.Scale = scale
+			s := Build(Input{Model: m, Units: u, Dimensions: true}, v)
+			bars := 0
+			for text := range texts(s) {
+				switch {
+				case round.MatchString(text):
+					bars++
+				case plain.MatchString(text) && len(strings.Fields(text)[0]) > 8: // more figures than Format or a round bar writes
+					t.Errorf("%s, %g px/m: a length reads %q", u.Name, scale, text)
+				}
+			}
+			if bars == 0 {
+				t.Errorf("%s, %g px/m: no scale bar of a round length among the texts", u.Name, scale)
+			}
+		}
+	}
+}

@@ -149,7 +149,7 @@ func WriteInfluenceText(w io.Writer, path string, r *MovingLoads, u units.System
 	unit, scale := influenceUnit(t, u)
 	value := func(v float64) string { return units.FormatNumber(v*scale) + " " + unit }
 	fmt.Fprintf(w, "Stave %s: %s\n", Version, path)
-	fmt.Fprintf(w, "Influence line of the %s, for %s\n", describeTarget(t, u), t.Unit())
+	fmt.Fprintf(w, "Influence line of the %s, for %s\n", describeTarget(t, u), t.UnitLoad(u.Unit(units.Force).Symbol))
 	fmt.Fprintln(w, "(exact solution of the member in closed form; finite elements: one solve per load position on one factorization, the load on the nearest node)")
 	tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', 0)
 	fmt.Fprintln(tw, "  load at\texact\tfinite elements")
@@ -365,7 +365,7 @@ func WriteInfluenceJSON(w io.Writer, path string, r *MovingLoads) error {
 	j.File, j.Units, j.Caution = path, "SI base units: m, N, N·m, Pa, rad; influence ordinates per N of the unit load", fem.Caution
 	t := r.Line.Target
 	l := &j.Line
-	l.Target, l.UnitLoad, l.Method = t.String(), t.Unit(), influenceMethod
+	l.Target, l.UnitLoad, l.Method = t.String(), t.UnitLoad("N"), influenceMethod
 	if t.Reaction {
 		l.Support, l.Motion = t.Support+1, t.Motion.String()
 	} else {
@@ -451,7 +451,7 @@ func MovingSheet(p *storage.Project, r *MovingLoads, i int, u units.System) (can
 	s.About = []string{
 		describeTrain(&tr.Train, tr.Label, L, u) + fmt.Sprintf("; %d positions in each direction, %s apart.", tr.Envelope.Positions, u.Format(units.Position, tr.Envelope.Step)),
 		fmt.Sprintf("Influence line of the %s for %s: largest %s %s with the load at %s, smallest %s %s at %s; exact solution in closed form, checked by one finite element solve per position.",
-			describeTarget(r.Line.Target, u), r.Line.Target.Unit(), units.FormatNumber(r.Largest.Value*scale), unit, u.Format(units.Position, r.Largest.S),
+			describeTarget(r.Line.Target, u), r.Line.Target.UnitLoad(u.Unit(units.Force).Symbol), units.FormatNumber(r.Largest.Value*scale), unit, u.Format(units.Position, r.Largest.S),
 			units.FormatNumber(r.Smallest.Value*scale), unit, u.Format(units.Position, r.Smallest.S)),
 		"Envelope: at every station the largest and smallest value over all positions (where an axle stands on the station, on the side that gives more); each extreme below is solved again by finite elements with the train at its governing position.",
 	}

@@ -20,7 +20,12 @@ func convergeCommand(args []string, stdout io.Writer) error {
 	asJSON := fs.Bool("json", false, "print the study as JSON")
 	maxPer := fs.Int("max", 64, "finest mesh: elements in every stretch between key points")
 	target := fs.Float64("target", 0, "also refine adaptively until the estimated and the true relative energy error are both at most this (e.g. 0.01)")
+	system := fs.String("units", "", "unit system the warnings are written in: SI or US (default: the file's display units)")
 	path, err := parseOneFile(fs, args, stdout)
+	if err != nil {
+		return err
+	}
+	sys, err := unitsFlag(*system)
 	if err != nil {
 		return err
 	}
@@ -47,7 +52,11 @@ func convergeCommand(args []string, stdout io.Writer) error {
 		}
 		versus = &v
 	}
-	a, err := analysis.Run(ctx, report.Request(p, nil))
+	r := report.Request(p, nil)
+	if sys.Name != "" {
+		r.Checks.Units = sys
+	}
+	a, err := analysis.Run(ctx, r)
 	if err != nil {
 		return err
 	}

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"io"
 	"path/filepath"
+	"strconv"
 	"strings"
 
 	"stave/canvas"
@@ -56,6 +57,9 @@ func influenceCommand(args []string, stdout io.Writer) error {
 	target, err := parseTarget(*quantity, *at, *side, *support, *motion, sys)
 	if err != nil {
 		return err
+	}
+	if err := onMember(target, *at, &p.Model, sys); err != nil {
+		return modelError{fmt.Errorf("%s: %w", path, err)}
 	}
 	r, err := report.Influence(p, report.InfluenceRequest{Target: target, Points: *points, FiniteElements: true, Envelope: *envelope || *out != "" || *sheet != ""})
 	if err != nil {
@@ -117,6 +121,32 @@ func parseTarget(quantity, at, side string, support int, motion string, sys unit
 		return t, usageError{fmt.Sprintf("--side %q: use left or right", side)}
 	}
 	return t, nil
+}
+
+// onMember refuses a target off member m, or a reaction its support does
+// not give, in units sys (fem/moving says the same in m). The place is
+// written as typed in at, the member's length to ten figures: 4.00001 m
+// typed for a member of 4 m must not read "4.000 m is not on 0 to 4.000 m".
+func onMember(t moving.Target, at string, m *fem.Model, sys units.System) error {
+	if t.Reaction {
+		if t.Support < 0 || t.Support >= len(m.Supports) {
+			return nil // fem/moving says there is no such support; no unit in it
+		}
+		sup := m.Supports[t.Support]
+		if !sup.Holds(t.Motion) {
+			return fmt.Errorf("support %d (%s at x = %s) does not hold the %s motion: it has no %s reaction", t.Support+1, sup.Kind, sys.Format(units.Position, sup.X), t.Motion, t.Motion)
+		}
+		return nil
+	}
+	if L := m.Length(); !(t.X >= 0 && t.X <= L) {
+		typed := strings.TrimSpace(at)
+		if _, err := strconv.ParseFloat(typed, 64); err == nil { // a plain number, in display units
+			typed += " " + sys.Unit(units.Position).Symbol
+		}
+		length := strconv.FormatFloat(sys.ToDisplay(units.Position, L), 'g', 10, 64)
+		return fmt.Errorf("x = %s is not on the member (0 to %s %s): give a point on it", typed, length, sys.Unit(units.Position).Symbol)
+	}
+	return nil
 }
 
 // writePicture draws the moving-loads picture of r with train i to the

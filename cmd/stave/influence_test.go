@@ -250,6 +250,12 @@ func TestInfluenceCommandMisuse(t *testing.T) {
 		{[]string{"../../testdata/moving/runway.json", "--quantity", "M", "--at", "1", "--train", "0", "--out", "x.png"}, 2, "--train 0: count the trains from 1"},
 		{[]string{"../../testdata/demo.json", "--quantity", "sigma_combined", "--at", "1"}, 1, "not linear"},
 		{[]string{"../../testdata/demo.json", "--quantity", "reaction", "--support", "2", "--motion", "rotation"}, 1, "does not hold the rotation"},
+		// In the units asked for: it said "x = 30.48 m is not on the member (0 to
+		// 4 m)" for --at 100 under US (100 ft = 30.48 m, 4 m = 13.12335958 ft;
+		// 1 ft = 0.3048 m exactly, NIST SP 811 Appendix B).
+		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "M", "--at", "100"}, 1, "x = 100 ft is not on the member (0 to 13.12335958 ft)"},
+		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "M", "--at", "-2 in"}, 1, "x = -2 in is not on the member (0 to 13.12335958 ft)"},
+		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "reaction", "--support", "2", "--motion", "rotation"}, 1, "support 2 (roller at x = 13.12 ft) does not hold the rotation"},
 	} {
 		code, _, stderr := runStave(t, append([]string{"influence"}, c.args...)...)
 		if code != c.code || !strings.Contains(stderr, c.says) {
@@ -380,5 +386,37 @@ func TestInfluenceCommandAxialForceAtItsOwnPoint(t *testing.T) {
 				}
 			}
 		})
+	}
+}
+
+// The unit load is named in the units the ordinates are printed per: a
+// moment line read in kip·ft per kip is for a unit force of 1 kip, not of
+// 1 N (the ordinate per N would be 4448.22 times smaller, NIST SP 811
+// Appendix B: 1 kip = 4448.2216152605 N). In the text and in the picture.
+func TestInfluenceUnitLoadInDisplayUnits(t *testing.T) {
+	dir := t.TempDir()
+	for _, c := range []struct {
+		units, quantity, want, per string
+	}{
+		{"SI", "M", "for a unit force of 1 kN acting down", "kN·m per kN"},
+		{"US", "M", "for a unit force of 1 kip acting down", "kip·ft per kip"},
+		{"SI", "N", "for a unit force of 1 kN along +x", "kN per kN"},
+		{"US", "N", "for a unit force of 1 kip along +x", "kip per kip"},
+	} {
+		pic := filepath.Join(dir, "line.svg")
+		code, out, stderr := runStave(t, "influence", "../../testdata/simply_supported_uniform.json", "--quantity", c.quantity, "--at", "1", "--points", "2", "--units", c.units, "--out", pic)
+		if code != 0 {
+			t.Fatalf("%s %s: exit %d, stderr %s", c.units, c.quantity, code, stderr)
+		}
+		if !strings.Contains(out, c.want) || !strings.Contains(out, c.per) {
+			t.Errorf("%s %s: the text does not say %q with ordinates in %q:\n%s", c.units, c.quantity, c.want, c.per, out)
+		}
+		svg, err := os.ReadFile(pic)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if c.quantity == "M" && !strings.Contains(string(svg), c.want) {
+			t.Errorf("%s %s: the picture does not say %q", c.units, c.quantity, c.want)
+		}
 	}
 }

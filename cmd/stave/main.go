@@ -5,7 +5,7 @@
 //
 //	stave solve [--json] [--units SI|US] [--show NAME] FILE
 //	stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet | --multiples] [--elements N] [--dpi N] [--points N] [--units SI|US] [--show NAME]
-//	stave converge [--json] [--max N] [--target E] FILE
+//	stave converge [--json] [--max N] [--target E] [--units SI|US] FILE
 //	stave influence FILE --quantity Q [--at X] [--support N] [--envelope] [--json]
 //	stave check [--json | --csv] [--workers N] [--units SI|US] FILE... | DIR
 //	stave bench [--json]
@@ -100,7 +100,7 @@ const usage = `usage:
   stave solve [--json] [--units SI|US] [--show NAME] FILE
   stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet | --multiples]
                [--elements N] [--dpi N] [--points N] [--units SI|US] [--show NAME]
-  stave converge [--json] [--max N] [--target E] FILE
+  stave converge [--json] [--max N] [--target E] [--units SI|US] FILE
   stave influence FILE --quantity Q [--at X] [--side left|right] [--support N]
                [--motion M] [--points N] [--envelope] [--json] [--units SI|US]
   stave check [--json | --csv] [--workers N] [--units SI|US] FILE... | DIR

@@ -403,6 +403,27 @@ func TestConvergeJSON(t *testing.T) {
 	}
 }
 
+// converge --units US names the warnings' places and values in US units,
+// as solve --units US does: 4 m is 13.12 ft (1 ft = 0.3048 m exactly, NIST
+// SP 811 Appendix B).
+func TestConvergeUnits(t *testing.T) {
+	for _, c := range []struct{ units, want, not string }{
+		{"US", "x = 13.12 ft", " m:"},
+		{"SI", "x = 4.000 m", " ft"},
+	} {
+		code, out, stderr := runStave(t, "converge", "--max", "2", "--units", c.units, "../../testdata/two_span_uniform.json")
+		if code == 1 || code == 2 {
+			t.Fatalf("--units %s: exit %d, stderr %s", c.units, code, stderr)
+		}
+		if !strings.Contains(out, c.want) || strings.Contains(out, c.not) {
+			t.Errorf("--units %s: the warnings do not say %q, or say %q:\n%s", c.units, c.want, c.not, out)
+		}
+	}
+	if code, _, stderr := runStave(t, "converge", "--units", "metric", "../../testdata/two_span_uniform.json"); code != 2 || !strings.Contains(stderr, "use SI or US") {
+		t.Errorf("--units metric: exit %d, stderr %q", code, stderr)
+	}
+}
+
 func TestBenchQuickJSONKeys(t *testing.T) {
 	code, out, stderr := runStave(t, "bench", "--quick", "--json")
 	if code != 0 {
@@ -736,7 +757,7 @@ func TestCommandHelp(t *testing.T) {
 	}{
 		{"solve", []string{"-json", "-units"}},
 		{"export", []string{"-out", "-sheet", "-points", "-units"}},
-		{"converge", []string{"-json", "-max", "-target"}},
+		{"converge", []string{"-json", "-max", "-target", "-units"}},
 		{"influence", []string{"-quantity", "-at", "-envelope", "-units"}},
 		{"check", []string{"usage: stave check [flags] FILE... | DIR", "-json", "-csv", "-workers", "-units"}},
 		{"bench", []string{"usage: stave bench [flags]\n", "-json", "-quick"}},

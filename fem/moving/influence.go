@@ -83,12 +83,14 @@ func (t Target) Bending() bool {
 	return true
 }
 
-// Unit is the unit load of t's influence line, in words.
-func (t Target) Unit() string {
+// UnitLoad is the unit load of t's influence line, in words, of 1 of the
+// force unit named by symbol: the unit the ordinates are read per ("N" for
+// the ordinates in SI base units, "kip" for ordinates per kip).
+func (t Target) UnitLoad(symbol string) string {
 	if t.Bending() {
-		return "a unit force of 1 N acting down"
+		return "a unit force of 1 " + symbol + " acting down"
 	}
-	return "a unit force of 1 N along +x"
+	return "a unit force of 1 " + symbol + " along +x"
 }
 
 // Influence holds a member's influence lines in closed form (see the

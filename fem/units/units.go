@@ -19,6 +19,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"math/big"
 	"strconv"
 	"strings"
 )
@@ -45,7 +46,7 @@ const (
 	ThermalExpansion                   // 1/K / 1/°F
 	TemperatureChange                  // K / °F (differences)
 	TranslationalStiffness             // kN/m / kip/in
-	RotationalStiffness                // kN·m/rad / kip·in/rad
+	RotationalStiffness                // kN·m/rad / kip·ft/rad, as the moments
 	Acceleration                       // m/s² / ft/s²
 	Energy                             // J / kip·in
 	FoundationModulus                  // kN/m² / kip/ft²: force per length of member per deflection
@@ -147,7 +148,7 @@ var USCustomary = System{Name: "US", Units: [kindCount]Unit{
 	ThermalExpansion:       {"1/°F", 1 / fahrenheitStep},
 	TemperatureChange:      {"°F", fahrenheitStep},
 	TranslationalStiffness: {"kip/in", kip / inch},
-	RotationalStiffness:    {"kip·in/rad", kip * inch},
+	RotationalStiffness:    {"kip·ft/rad", kip * foot},
 	Acceleration:           {"ft/s²", foot},
 	Energy:                 {"kip·in", kip * inch},
 	FoundationModulus:      {"kip/ft²", kip / (foot * foot)},
@@ -171,7 +172,7 @@ var extraUnits = map[Kind][]Unit{
 	ThermalExpansion:       {{"1/°C", 1}},
 	TemperatureChange:      {{"°C", 1}},
 	TranslationalStiffness: {{"N/m", 1}, {"kN/mm", 1e6}, {"lbf/in", poundForce / inch}},
-	RotationalStiffness:    {{"N·m/rad", 1}, {"kip·ft/rad", kip * foot}},
+	RotationalStiffness:    {{"N·m/rad", 1}, {"kip·in/rad", kip * inch}},
 	Acceleration:           {{"g", standardGravity}},
 	Energy:                 {{"kJ", 1e3}, {"N·m", 1}, {"ft·lbf", foot * poundForce}},
 	FoundationModulus:      {{"N/m²", 1}, {"MN/m²", 1e6}, {"kip/in²", kip / (inch * inch)}, {"lbf/in²", poundForce / (inch * inch)}},
@@ -256,10 +257,10 @@ func (s System) Parse(q Kind, text string) (float64, error) {
 		v = 0 // a typed -0 is zero, not "-0.0 m" in what is said about it
 	}
 	if symbol == "" {
-		return s.FromDisplay(q, v), nil
+		return exactProduct(number, v, s.Unit(q).ToSI), nil
 	}
 	if u, ok := lookUp(q, symbol); ok {
-		return v * u.ToSI, nil
+		return exactProduct(number, v, u.ToSI), nil
 	}
 	if other, ok := kindOf(symbol); ok {
 		return 0, fmt.Errorf("'%s' is %s, but %s is expected here; use one of %s",
@@ -267,6 +268,29 @@ func (s System) Parse(q Kind, text string) (float64, error) {
 	}
 	return 0, fmt.Errorf("unknown unit '%s' for %s; use one of %s",
 		symbol, article(q), strings.Join(Accepted(q), ", "))
+}
+
+// exactProduct is the typed decimal number (read as v) times factor,
+// worked out exactly and rounded once: 12 ft is 3.6576 m, where 12 × 0.3048
+// in floating point is 3.6576000000000004, which a saved file would show.
+// The factor is taken as the decimal its float64 reads as, which is exact
+// for every factor of a finite decimal (ft, in, kip, kip·ft, lbf·in...).
+// Text too long or an exponent too large for cheap exact arithmetic, and
+// zero, go by the floating-point product.
+func exactProduct(number string, v, factor float64) float64 {
+	if v == 0 || len(number) > 40 || math.Abs(v) > 1e300 || math.Abs(v) < 1e-300 {
+		return v * factor
+	}
+	if i := strings.IndexAny(number, "eE"); i >= 0 && len(strings.TrimLeft(number[i+1:], "+-")) > 3 {
+		return v * factor
+	}
+	n, ok := new(big.Rat).SetString(number)
+	f, okFactor := new(big.Rat).SetString(strconv.FormatFloat(factor, 'g', -1, 64))
+	if !ok || !okFactor {
+		return v * factor
+	}
+	p, _ := n.Mul(n, f).Float64()
+	return p
 }
 
 // Accepted lists the unit symbols Parse takes for q: SI's first, then US's,

@@ -1,7 +1,9 @@
 package units
 
 import (
+	"fmt"
 	"math"
+	"strconv"
 	"strings"
 	"testing"
 )
@@ -38,9 +40,11 @@ func TestFactorsAgainstNIST811(t *testing.T) {
 		{"kip/ft", us.Unit(LineLoad).ToSI, 1.459390e4, 5e-7},
 		// B.8: pound-force per inch (lbf/in) to newton per metre = 1.751 268 E+02.
 		{"kip/in", us.Unit(TranslationalStiffness).ToSI, 1.751268e5, 5e-7},
+		// B.8: pound-force foot (lbf·ft) to newton metre = 1.355 818 E+00.
+		{"kip·ft/rad", us.Unit(RotationalStiffness).ToSI, 1.355818e3, 5e-7},
 		// B.8: pound-force inch (lbf·in) to newton metre = 1.129 848 E-01.
-		{"kip·in/rad", us.Unit(RotationalStiffness).ToSI, 1.129848e2, 5e-7},
 		{"kip·in energy", us.Unit(Energy).ToSI, 1.129848e2, 5e-7},
+		{"kip·in/rad typed", extra(t, RotationalStiffness, "kip·in/rad").ToSI, 1.129848e2, 5e-7},
 		// B.8: square inch (in²) to square metre = 6.4516 E-04, exact.
 		{"in²", us.Unit(Area).ToSI, 6.4516e-4, 1e-15},
 		// B.8: inch to the fourth power (in⁴) to metre to the fourth power = 4.162 314 E-07.
@@ -68,6 +72,21 @@ func TestFactorsAgainstNIST811(t *testing.T) {
 		if rel := math.Abs(c.got-c.want) / c.want; rel > c.relative {
 			t.Errorf("%s: factor %.16g, NIST SP 811 gives %.16g (relative difference %.2g > %.1g)",
 				c.name, c.got, c.want, rel, c.relative)
+		}
+	}
+}
+
+// A stiffness reads in the units of what it relates: a translational
+// spring in force per deflection unit, a rotational one in moment per
+// radian, so a spring's force k·w and moment k·θ come out in the units the
+// reactions are printed in (dimensional consistency, common practice).
+func TestStiffnessUnitsFollowForceMomentAndDeflection(t *testing.T) {
+	for _, s := range Systems() {
+		if got, want := s.Unit(RotationalStiffness).Symbol, s.Unit(Moment).Symbol+"/rad"; got != want {
+			t.Errorf("%s: rotational stiffness in %s, want %s", s.Name, got, want)
+		}
+		if got, want := s.Unit(RotationalStiffness).ToSI, s.Unit(Moment).ToSI; math.Abs(got-want) > 1e-15*want {
+			t.Errorf("%s: rotational stiffness factor %g, want the moment's %g", s.Name, got, want)
 		}
 	}
 }
@@ -257,6 +276,44 @@ func TestParseErrors(t *testing.T) {
 		}
 		if !strings.Contains(err.Error(), c.message) {
 			t.Errorf("Parse(%s, %q) error %q, want it to contain %q", c.q, c.text, err, c.message)
+		}
+	}
+}
+
+// A length typed in feet or inches is stored as the metre value the exact
+// definition gives (1 ft = 0.3048 m, 1 in = 0.0254 m, NIST SP 811 Appendix
+// B): the nearest double to n × 0.0381 m for n/8 ft, so a file holds
+// 3.6576 for 12 ft, not 3.6576000000000004 (12 × 0.3048 in floating point).
+// The expected value is the decimal n·381 × 10⁻⁴ written out by integer
+// arithmetic and read by strconv.
+func TestParseFeetAndInchesExactly(t *testing.T) {
+	for n := 1; n <= 4000; n++ {
+		feet := strconv.FormatFloat(float64(n)/8, 'f', -1, 64)
+		want, _ := strconv.ParseFloat(fmt.Sprintf("%d.%04d", n*381/10000, n*381%10000), 64)
+		for _, text := range []string{feet, feet + " ft", strconv.FormatFloat(float64(n)*1.5, 'f', -1, 64) + " in"} {
+			got, err := USCustomary.Parse(Position, text)
+			if err != nil || got != want {
+				t.Fatalf("%q: %.17g (%v), want %.17g", text, got, err, want)
+			}
+		}
+	}
+	// Any other factor of a finite decimal: the exact product, rounded once.
+	// 5 kip·ft is 5 × 4448.2216152605 × 0.3048 N·m = 6779.089741657002
+	// exactly, 3 lbf·in is 3 × 4.4482216152605 × 0.0254 = 0.3389544870828501.
+	for _, c := range []struct {
+		q    Kind
+		text string
+		want float64
+	}{
+		{Moment, "5 kip·ft", 6779.089741657002},
+		{Force, "0.1 kip", 444.82216152605},
+		{Dimension, "0.3 in", 0.00762},
+		{Position, "1e-3 ft", 0.0003048},
+		{Moment, "3 lbf·in", 0.3389544870828501},
+	} {
+		got, err := USCustomary.Parse(c.q, c.text)
+		if err != nil || got != c.want {
+			t.Errorf("%q: %.17g (%v), want %.17g", c.text, got, err, c.want)
 		}
 	}
 }
