@@ -390,3 +390,46 @@ func TestBucklingCheckTakesTheWorstArrangement(t *testing.T) {
 	}
 	t.Error("no buckling check of the first span")
 }
+
+// A model with load cases that gives gravity for self-weight but marks no
+// case with it carries its own weight in none of them: a caution says so.
+// A case that takes it, or a model without cases (its one load set takes
+// the weight), or gravity 0, gets none.
+func TestSelfWeightInNoCaseIsFlagged(t *testing.T) {
+	seg := fem.Segment{Start: 0, End: 6, Section: fem.Section{Area: 0.01, SecondMoment: 1e-4, FibreDistance: 0.15},
+		Material: fem.Material{Elastic: 210e9, Density: 7850}}
+	point := []fem.PointLoad{{X: 3, Transverse: -1e4}}
+	base := fem.Model{Segments: []fem.Segment{seg}, Supports: []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 6, Kind: fem.Roller}},
+		Gravity: [2]float64{0, -fem.StandardGravity}}
+	for _, c := range []struct {
+		name  string
+		cases []fem.LoadCase
+		loads []fem.PointLoad
+		g     [2]float64
+		want  bool
+	}{
+		{"no case takes it", []fem.LoadCase{{Name: "live", PointLoads: point}}, nil, base.Gravity, true},
+		{"a case takes it", []fem.LoadCase{{Name: "dead", SelfWeight: true}, {Name: "live", PointLoads: point}}, nil, base.Gravity, false},
+		{"no cases", nil, point, base.Gravity, false},
+		{"no gravity", []fem.LoadCase{{Name: "live", PointLoads: point}}, nil, [2]float64{}, false},
+	} {
+		m := base
+		m.Cases, m.PointLoads, m.Gravity = c.cases, c.loads, c.g
+		a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
+		if err != nil || a.Err != nil {
+			t.Fatalf("%s: %v %v", c.name, err, a.Err)
+		}
+		got := false
+		for _, f := range a.Findings() {
+			if f.Code == CodeSelfWeightUnused {
+				got = true
+				if f.Severity != Caution {
+					t.Errorf("%s: severity %v, want a caution", c.name, f.Severity)
+				}
+			}
+		}
+		if got != c.want {
+			t.Errorf("%s: flagged %v, want %v", c.name, got, c.want)
+		}
+	}
+}

@@ -27,6 +27,7 @@ const (
 	CodePending           Code = "pending"
 	CodeTrainNotChecked   Code = "train_not_checked"
 	CodeTrainNotPlaced    Code = "train_not_placed"
+	CodeSelfWeightUnused  Code = "self_weight_unused"
 )
 
 // CodeInfo describes one code: the severity its findings have, whether it
@@ -57,6 +58,7 @@ var Codes = []CodeInfo{
 	{CodeVerified, OK, false, "a verification of the answer (equilibrium, error against the exact solution, handbook) agrees"},
 	{CodePending, Pending, false, "the exact solution and the checks follow (the window, while the drawing moves)"},
 	{CodeTrainNotChecked, Caution, false, "a moving load train is left out of the design checks and the drawn results: a combination takes it (the checks and the drawn envelope take the combination's cases alone), or no combination does (they take the member's own loads and cases alone); the train's part is in the trains' results"},
+	{CodeSelfWeightUnused, Caution, false, "the model gives gravity for self-weight, but no load case takes it: the member's own weight acts in none"},
 	{CodeTrainNotPlaced, Caution, false, "a moving load train could not be placed on the member (the message says why: it does not fit, say): the trains' results leave it out"},
 }
 

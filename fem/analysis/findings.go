@@ -110,6 +110,7 @@ func (a *Analysis) Findings() []Finding {
 		}
 	}
 	out = append(out, thermalFindings(&a.Model)...)
+	out = append(out, selfWeightFindings(&a.Model)...)
 	out = append(out, shearAreaFindings(&a.Model)...)
 	out = append(out, depthFindings(&a.Model)...)
 	if a.Solution == nil {
@@ -172,6 +173,18 @@ func thermalFindings(m *fem.Model) []Finding {
 			fmt.Sprintf("Segment %d has no coefficient of thermal expansion α, so %s does nothing to it: enter α (typical values: steel 12e-6 /K, concrete 10e-6 /K, aluminium 23.6e-6 /K), or remove the temperature load.", i+1, strings.Join(loads, " and "))))
 	}
 	return out
+}
+
+// selfWeightFindings is the caution that m gives gravity for self-weight
+// while it has load cases and none of them takes the self-weight: it then
+// acts in no case, which leaving the weight out on purpose does not need
+// (gravity 0 says that).
+func selfWeightFindings(m *fem.Model) []Finding {
+	if m.Gravity == [2]float64{} || len(m.Cases) == 0 || slices.ContainsFunc(m.Cases, func(c fem.LoadCase) bool { return c.SelfWeight }) {
+		return nil
+	}
+	return []Finding{finding(CodeSelfWeightUnused, "self-weight in no load case",
+		"The model gives gravity for self-weight, but no load case takes it, so the member's own weight acts in none of the cases, combinations or checks. Mark the cases it acts in (self-weight), or set gravity to 0 if the weight is to be left out.")}
 }
 
 // shearAreaFindings are the cautions that a segment deforming in shear has
