@@ -569,7 +569,7 @@ func WriteResultsText(w io.Writer, src Source) {
 	if e := sum.ExactError; e != nil {
 		WriteErrorText(w, *e, u)
 	}
-	writeChecksText(w, src)
+	WriteChecksText(w, src)
 }
 
 // percent writes a fraction as a percentage with three figures.
@@ -674,9 +674,9 @@ func checkValue(r check.Result, u units.System) string {
 	return s
 }
 
-// writeChecksText writes every check of src on one line each, then the
+// WriteChecksText writes every check of src on one line each, then the
 // warnings in full.
-func writeChecksText(w io.Writer, src Source) {
+func WriteChecksText(w io.Writer, src Source) {
 	a, u := src.Analysis, src.Units
 	fmt.Fprintln(w, "\nChecks")
 	tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', 0)

@@ -309,3 +309,24 @@ func TestSolveCombinationAgainstThreeMoments(t *testing.T) {
 		t.Errorf("combination: R_A %.12g N (FE %.12g), want 7000", ra.Value, ra.FE)
 	}
 }
+
+// The text of a model with load cases, shown as its envelope, lists the
+// envelope's checks as the JSON does, each naming its governing
+// combination: the deflection of the two-span beam's second span governs
+// with the imposed load on that span alone, 7.320 mm, as the first span's
+// does with the first span loaded (one span of two equal spans loaded:
+// 0.0092·wL⁴/EI, AISC Manual, beam diagrams and formulas, from memory).
+func TestSolveTextOfAnEnvelopeListsItsChecks(t *testing.T) {
+	code, out, _ := runStave(t, "solve", "../../testdata/two_span_cases.json")
+	if code != 0 {
+		t.Fatalf("exit %d", code)
+	}
+	for _, want := range []string{"\nChecks\n", "Deflection, span 4.000 m to 8.000 m (governing: pattern, imposed on span 2)", "7.320 mm exact", "\nWarnings\n"} {
+		if !strings.Contains(out, want) {
+			t.Errorf("the envelope's text has no %q", want)
+		}
+	}
+	if strings.Index(out, "\nChecks\n") > strings.Index(out, "\nWarnings\n") {
+		t.Error("the checks come after the warnings; want them before")
+	}
+}

@@ -74,8 +74,7 @@ func solveCommand(args []string, stdout io.Writer) error {
 		if cases != nil && r.Show.Kind == analysis.ShowEnvelope {
 			report.WriteCasesText(stdout, path, cases, sys)
 			report.WriteTrainsText(stdout, src)
-			fmt.Fprintln(stdout)
-			report.WriteWarningsText(stdout, src.Findings)
+			report.WriteChecksText(stdout, src) // the envelope's checks, then the warnings
 			report.WriteCasesCaution(stdout)
 			break
 		}
