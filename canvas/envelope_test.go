@@ -15,27 +15,7 @@ import (
 // with the first span alone loaded, the moment over the middle support
 // with both).
 func TestEnvelopeDrawsBothCurvesAndNamesTheCombination(t *testing.T) {
-	w := fem.DistributedLoad{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 8, Intensity: -10e3}}}
-	first := fem.DistributedLoad{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 4, Intensity: -10e3}}}
-	m := &fem.Model{
-		Segments: []fem.Segment{{Start: 0, End: 8, Section: fem.Section{Area: 4e-3, SecondMoment: 8e-6, FibreDistance: 0.1}, Material: fem.Material{Elastic: 2e11}}},
-		Supports: []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}, {X: 8, Kind: fem.Roller}},
-		Cases:    []fem.LoadCase{{Name: "both spans", DistributedLoad: []fem.DistributedLoad{w}}, {Name: "first span", DistributedLoad: []fem.DistributedLoad{first}}},
-		Combinations: []fem.Combination{
-			{Name: "both", Factors: []fem.CaseFactor{{Case: 0, Factor: 1}}},
-			{Name: "first", Factors: []fem.CaseFactor{{Case: 1, Factor: 1}}},
-		},
-		Mesh: fem.MeshSettings{Elements: 32},
-	}
-	p, err := fem.Prepare(m)
-	if err != nil {
-		t.Fatal(err)
-	}
-	cs, err := p.SolveCombinations(p.Mesh())
-	if err != nil {
-		t.Fatal(err)
-	}
-	sol, _ := cs.Solution(0)
+	m, cs, sol := twoSpanCombinations(t)
 	in := Input{Model: m, Solution: sol, Overlays: storage.Overlays{BendingMoment: true, DeformedShape: true},
 		Envelope: &Envelope{Solutions: cs, Result: cs.Envelope(), Names: []string{"both", "first"}}}
 	v := NewView(1000, 600)
@@ -78,6 +58,32 @@ func TestEnvelopeDrawsBothCurvesAndNamesTheCombination(t *testing.T) {
 // the first alone; AISC Manual beam diagrams, continuous beam of two equal
 // spans, from memory).
 func TestEnvelopeSketchNamesItsCombination(t *testing.T) {
+	m, cs, sol := twoSpanCombinations(t)
+	for _, deformed := range []bool{true, false} {
+		in := Input{Model: m, Solution: sol, Units: units.SI, Overlays: storage.Overlays{DeformedShape: deformed, BendingMoment: true},
+			Envelope: &Envelope{Solutions: cs, Result: cs.Envelope(), Names: []string{"both", "first"}}}
+		v := NewView(1000, 600)
+		v.Fit(m)
+		var labels []string
+		for _, it := range Build(in, v).Items {
+			if it.Text != "" {
+				labels = append(labels, it.Text)
+			}
+		}
+		all := strings.Join(labels, " | ")
+		for _, want := range []string{"Ry 15.00 kN", "reactions: combination both"} {
+			if !strings.Contains(all, want) {
+				t.Errorf("deflected shape %v: no label with %q among %s", deformed, want, all)
+			}
+		}
+	}
+}
+
+// twoSpanCombinations is a beam continuous over two spans of 4 m under
+// 10 kN/m, on both spans ("both") or the first alone ("first"), its two
+// combinations solved, and the first's solution.
+func twoSpanCombinations(t *testing.T) (*fem.Model, *fem.CombinationSolutions, *fem.Solution) {
+	t.Helper()
 	w := fem.DistributedLoad{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 8, Intensity: -10e3}}}
 	first := fem.DistributedLoad{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 4, Intensity: -10e3}}}
 	m := &fem.Model{
@@ -99,22 +105,5 @@ func TestEnvelopeSketchNamesItsCombination(t *testing.T) {
 		t.Fatal(err)
 	}
 	sol, _ := cs.Solution(0)
-	for _, deformed := range []bool{true, false} {
-		in := Input{Model: m, Solution: sol, Units: units.SI, Overlays: storage.Overlays{DeformedShape: deformed, BendingMoment: true},
-			Envelope: &Envelope{Solutions: cs, Result: cs.Envelope(), Names: []string{"both", "first"}}}
-		v := NewView(1000, 600)
-		v.Fit(m)
-		var labels []string
-		for _, it := range Build(in, v).Items {
-			if it.Text != "" {
-				labels = append(labels, it.Text)
-			}
-		}
-		all := strings.Join(labels, " | ")
-		for _, want := range []string{"Ry 15.00 kN", "reactions: combination both"} {
-			if !strings.Contains(all, want) {
-				t.Errorf("deflected shape %v: no label with %q among %s", deformed, want, all)
-			}
-		}
-	}
+	return m, cs, sol
 }

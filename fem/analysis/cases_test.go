@@ -155,19 +155,10 @@ func TestOverhangCheckTakesPatternLoading(t *testing.T) {
 		Cases:        []fem.LoadCase{{Name: "permanent", DistributedLoad: uniform(-3e3)}, {Name: "imposed", DistributedLoad: uniform(-10e3), BySpan: true}},
 		Combinations: []fem.Combination{{Name: "U", Kind: fem.Serviceability, Factors: []fem.CaseFactor{{Case: 0, Factor: 1.35}, {Case: 1, Factor: 1.5}}}},
 	}
-	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
-	if err != nil || a.Err != nil {
-		t.Fatalf("%v, %v", err, a.Err)
+	r := envelopeCheck(t, m, func(r check.Result) bool { return r.Code == check.CodeDeflection && r.Span == [2]float64{0, 2} }, "no deflection check of the left overhang")
+	if math.Abs(r.Value-0.23121875) > 1e-9 || !strings.Contains(r.Name, "imposed on span 2)") {
+		t.Errorf("%s: %.12g m, want 0.23121875 with imposed on span 2", r.Name, r.Value)
 	}
-	for _, r := range a.Checks {
-		if r.Code == check.CodeDeflection && r.Span == [2]float64{0, 2} {
-			if math.Abs(r.Value-0.23121875) > 1e-9 || !strings.Contains(r.Name, "imposed on span 2)") {
-				t.Errorf("%s: %.12g m, want 0.23121875 with imposed on span 2", r.Name, r.Value)
-			}
-			return
-		}
-	}
-	t.Error("no deflection check of the left overhang")
 }
 
 // The same beam with its right support a spring as stiff as a roller: its
@@ -187,19 +178,10 @@ func TestOverhangBeyondASpringTakesPatternLoading(t *testing.T) {
 		Cases:        []fem.LoadCase{{Name: "permanent", DistributedLoad: uniform(-3e3)}, {Name: "imposed", DistributedLoad: uniform(-10e3), BySpan: true}},
 		Combinations: []fem.Combination{{Name: "U", Kind: fem.Serviceability, Factors: []fem.CaseFactor{{Case: 0, Factor: 1.35}, {Case: 1, Factor: 1.5}}}},
 	}
-	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
-	if err != nil || a.Err != nil {
-		t.Fatalf("%v, %v", err, a.Err)
+	r := envelopeCheck(t, m, func(r check.Result) bool { return r.Code == check.CodeDeflection && r.Span == [2]float64{10, 12} }, "no deflection check of the right overhang")
+	if math.Abs(r.Value-0.23121875) > 1e-5*0.23121875 || !strings.Contains(r.Name, "imposed on span 2)") {
+		t.Errorf("%s: %.12g m, want 0.23121875 with imposed on span 2", r.Name, r.Value)
 	}
-	for _, r := range a.Checks {
-		if r.Code == check.CodeDeflection && r.Span == [2]float64{10, 12} {
-			if math.Abs(r.Value-0.23121875) > 1e-5*0.23121875 || !strings.Contains(r.Name, "imposed on span 2)") {
-				t.Errorf("%s: %.12g m, want 0.23121875 with imposed on span 2", r.Name, r.Value)
-			}
-			return
-		}
-	}
-	t.Error("no deflection check of the right overhang")
 }
 
 // The envelope's checks are those of every combination, not only those
@@ -223,19 +205,10 @@ func TestEnvelopeChecksTakeChecksOfLaterCombinations(t *testing.T) {
 			{Name: "S warm", Kind: fem.Strength, Factors: []fem.CaseFactor{{Case: 1, Factor: 1}}},
 		},
 	}
-	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
-	if err != nil || a.Err != nil {
-		t.Fatalf("%v, %v", err, a.Err)
+	r := envelopeCheck(t, m, func(r check.Result) bool { return r.Code == check.CodeBuckling }, "no buckling check: the warm combination's compression is left out of the envelope's checks")
+	if math.Abs(r.Value-480e3) > 1e-9*480e3 || r.Status != check.Fail || !strings.Contains(r.Name, "governing: S warm") {
+		t.Errorf("%s: %s, %.9g N; want a failure at 480 kN governed by S warm", r.Name, r.Status, r.Value)
 	}
-	for _, r := range a.Checks {
-		if r.Code == check.CodeBuckling {
-			if math.Abs(r.Value-480e3) > 1e-9*480e3 || r.Status != check.Fail || !strings.Contains(r.Name, "governing: S warm") {
-				t.Errorf("%s: %s, %.9g N; want a failure at 480 kN governed by S warm", r.Name, r.Status, r.Value)
-			}
-			return
-		}
-	}
-	t.Error("no buckling check: the warm combination's compression is left out of the envelope's checks")
 }
 
 // upliftModel is a beam continuous over two equal spans of 4 m (EI = 20
@@ -266,19 +239,10 @@ func upliftModel(kind fem.CombinationKind) fem.Model {
 // one span lowers it to −20 + 15·4²/16 = −5 kN·m, and a span's sagging
 // moment is at most 17.6 kN·m), so 20 MPa at c/I = 1000 /m³.
 func TestStressCheckFindsTheWorstArrangementAnywhere(t *testing.T) {
-	a, err := Run(context.Background(), Request{Model: upliftModel(fem.Strength), Checks: check.DefaultOptions()})
-	if err != nil || a.Err != nil {
-		t.Fatalf("%v, %v", err, a.Err)
+	r := envelopeCheck(t, upliftModel(fem.Strength), func(r check.Result) bool { return r.Code == check.CodeStress }, "no stress check")
+	if math.Abs(math.Abs(r.Value)-20e6) > 1e-9*20e6 || math.Abs(r.X-4) > 1e-9 || !strings.Contains(r.Name, "uplift on no span") {
+		t.Errorf("%s: %.12g Pa at x = %g m; want 20 MPa at x = 4 m with the uplift on no span", r.Name, r.Value, r.X)
 	}
-	for _, r := range a.Checks {
-		if r.Code == check.CodeStress {
-			if math.Abs(math.Abs(r.Value)-20e6) > 1e-9*20e6 || math.Abs(r.X-4) > 1e-9 || !strings.Contains(r.Name, "uplift on no span") {
-				t.Errorf("%s: %.12g Pa at x = %g m; want 20 MPa at x = 4 m with the uplift on no span", r.Name, r.Value, r.X)
-			}
-			return
-		}
-	}
-	t.Error("no stress check")
 }
 
 // The deflection check takes the worst arrangement over the whole span
@@ -307,19 +271,10 @@ func TestDeflectionCheckFindsTheWorstArrangementAnywhere(t *testing.T) {
 		}
 	}
 	want := down((lo + hi) / 2)
-	a, err := Run(context.Background(), Request{Model: upliftModel(fem.Serviceability), Checks: check.DefaultOptions()})
-	if err != nil || a.Err != nil {
-		t.Fatalf("%v, %v", err, a.Err)
+	r := envelopeCheck(t, upliftModel(fem.Serviceability), func(r check.Result) bool { return r.Code == check.CodeDeflection && r.Span == [2]float64{0, 4} }, "no deflection check of the first span")
+	if math.Abs(math.Abs(r.Value)-want) > 1e-9*want || !strings.Contains(r.Name, "uplift on span 2)") {
+		t.Errorf("%s: %.12g m; want %.12g m with the uplift on span 2", r.Name, r.Value, want)
 	}
-	for _, r := range a.Checks {
-		if r.Code == check.CodeDeflection && r.Span == [2]float64{0, 4} {
-			if math.Abs(math.Abs(r.Value)-want) > 1e-9*want || !strings.Contains(r.Name, "uplift on span 2)") {
-				t.Errorf("%s: %.12g m; want %.12g m with the uplift on span 2", r.Name, r.Value, want)
-			}
-			return
-		}
-	}
-	t.Error("no deflection check of the first span")
 }
 
 // The worst arrangement for an overhang's deflection check is found with
@@ -343,19 +298,10 @@ func TestOverhangCheckAfterAHeaveTakesTheWorstArrangement(t *testing.T) {
 			{Name: "imposed", DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 6, Intensity: -10e3}}}}, BySpan: true}},
 		Combinations: []fem.Combination{{Name: "C", Kind: fem.Serviceability, Factors: []fem.CaseFactor{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}}},
 	}
-	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
-	if err != nil || a.Err != nil {
-		t.Fatalf("%v, %v", err, a.Err)
+	r := envelopeCheck(t, m, func(r check.Result) bool { return r.Code == check.CodeDeflection && r.Span == [2]float64{4, 6} }, "no deflection check of the overhang")
+	if math.Abs(math.Abs(r.Value)-want) > 1e-9*want || !strings.Contains(r.Name, "imposed on span 2)") {
+		t.Errorf("%s: %.12g m; want %.12g m with the imposed load on span 2", r.Name, r.Value, want)
 	}
-	for _, r := range a.Checks {
-		if r.Code == check.CodeDeflection && r.Span == [2]float64{4, 6} {
-			if math.Abs(math.Abs(r.Value)-want) > 1e-9*want || !strings.Contains(r.Name, "imposed on span 2)") {
-				t.Errorf("%s: %.12g m; want %.12g m with the imposed load on span 2", r.Name, r.Value, want)
-			}
-			return
-		}
-	}
-	t.Error("no deflection check of the overhang")
 }
 
 // The buckling check takes the worst arrangement of the spans too. A
@@ -376,19 +322,10 @@ func TestBucklingCheckTakesTheWorstArrangement(t *testing.T) {
 			PointLoads: []fem.PointLoad{{X: 4, Axial: -10e3}, {X: 8, Axial: 6e3}}}},
 		Combinations: []fem.Combination{{Name: "C", Kind: fem.Strength, Factors: []fem.CaseFactor{{Case: 0, Factor: 1}}}},
 	}
-	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
-	if err != nil || a.Err != nil {
-		t.Fatalf("%v, %v", err, a.Err)
+	r := envelopeCheck(t, m, func(r check.Result) bool { return r.Code == check.CodeBuckling && r.Span == [2]float64{0, 5} }, "no buckling check of the first span")
+	if math.Abs(r.Value-10e3) > 1e-9*10e3 || !strings.Contains(r.Name, "imposed on span 1)") {
+		t.Errorf("%s: %.12g N; want 10 kN of compression with the imposed case on span 1", r.Name, r.Value)
 	}
-	for _, r := range a.Checks {
-		if r.Code == check.CodeBuckling && r.Span == [2]float64{0, 5} {
-			if math.Abs(r.Value-10e3) > 1e-9*10e3 || !strings.Contains(r.Name, "imposed on span 1)") {
-				t.Errorf("%s: %.12g N; want 10 kN of compression with the imposed case on span 1", r.Name, r.Value)
-			}
-			return
-		}
-	}
-	t.Error("no buckling check of the first span")
 }
 
 // A model with load cases that gives gravity for self-weight but marks no
@@ -432,4 +369,21 @@ func TestSelfWeightInNoCaseIsFlagged(t *testing.T) {
 			t.Errorf("%s: flagged %v, want %v", c.name, got, c.want)
 		}
 	}
+}
+
+// envelopeCheck is the check of model m's analysis that is, failing the
+// test with missing when there is none.
+func envelopeCheck(t *testing.T, m fem.Model, is func(check.Result) bool, missing string) check.Result {
+	t.Helper()
+	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
+	if err != nil || a.Err != nil {
+		t.Fatalf("%v, %v", err, a.Err)
+	}
+	for _, r := range a.Checks {
+		if is(r) {
+			return r
+		}
+	}
+	t.Fatal(missing)
+	return check.Result{}
 }
