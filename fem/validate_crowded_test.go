@@ -102,3 +102,31 @@ func TestLowestWithinAsEveryPair(t *testing.T) {
 		}
 	}
 }
+
+// A case placed by span over more spans than MaxPatternSpans is refused,
+// naming the case and the count: each arrangement of loaded spans is
+// solved and checked whole, for every span's check, so the work grew with
+// the cube of the spans (200 spans: more than 60 s and 1.5 GB); up to the
+// limit it is accepted.
+func TestValidatePatternSpansLimit(t *testing.T) {
+	model := func(spans int) *Model {
+		L := float64(spans)
+		m := &Model{Segments: []Segment{testSegment(0, L)}, Supports: []Support{{X: 0, Kind: Pinned}}}
+		for i := 1; i <= spans; i++ {
+			m.Supports = append(m.Supports, Support{X: float64(i), Kind: Roller})
+		}
+		uniform := []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -1e3}, {L, -1e3}}}}
+		m.Cases = []LoadCase{{Name: "permanent", DistributedLoad: uniform}, {Name: "imposed", DistributedLoad: uniform, BySpan: true}}
+		m.Combinations = []Combination{{Name: "all", Factors: []CaseFactor{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}}}
+		return m
+	}
+	if err := model(MaxPatternSpans).Validate(); err != nil {
+		t.Errorf("%d spans placed by span: %v, want it accepted", MaxPatternSpans, err)
+	}
+	var ve *ValidationError
+	err := model(MaxPatternSpans + 1).Validate()
+	want := fmt.Sprintf("load case \"imposed\" is placed by span over %d spans, more than the %d", MaxPatternSpans+1, MaxPatternSpans)
+	if !errors.As(err, &ve) || len(ve.Problems) != 1 || ve.Problems[0].Place != (Place{Item: Item{Kind: CaseItem, Index: 1}}) || !strings.HasPrefix(ve.Problems[0].Message, want) {
+		t.Errorf("%d spans placed by span: %v, want one problem at the case starting %q", MaxPatternSpans+1, err, want)
+	}
+}
