@@ -1,9 +1,11 @@
 package fem
 
 import (
+	"cmp"
 	"fmt"
 	"math"
 	"slices"
+	"sort"
 	"strings"
 
 	"gonum.org/v1/gonum/mat"
@@ -71,103 +73,289 @@ func checkMechanism(m *Model, bending bool) error {
 }
 
 // hingeMechanism finds a rigid-body motion of the chain of parts between
-// hinges that every support and joint allows: the null space of the
-// constraints on each part's offset a and slope b (x scaled by the length,
-// so the columns are alike), from gonum's singular value decomposition.
+// hinges that every support and joint allows. Each part p moves by
+// w(x) = a_p + b_p·(x − cut_p)/L (x scaled by the length, so a and b are
+// alike), and every constraint ties one part or two neighbours: a
+// deflection or rotation restraint, ground under the part, the deflection
+// shared at a hinge and, through a spring, the rotation. The null space of
+// those constraints is found in one sweep along the chain (chainSweep),
+// in time linear in the hinges, supports and foundations.
 func hingeMechanism(m *Model) error {
 	L := m.Length()
-	cuts := []float64{0}
-	for _, h := range m.Hinges {
+	hinges := slices.Clone(m.Hinges)
+	slices.SortFunc(hinges, func(a, b Hinge) int { return cmp.Compare(a.X, b.X) })
+	cuts := make([]float64, 0, len(hinges)+2)
+	cuts = append(cuts, 0)
+	for _, h := range hinges {
 		cuts = append(cuts, h.X)
 	}
-	slices.Sort(cuts)
 	cuts = append(cuts, L)
 	parts := len(cuts) - 1
-	part := func(x float64) int { // the part holding x, the right one at a hinge
-		for p := parts - 1; p > 0; p-- {
-			if x >= cuts[p] {
-				return p
-			}
-		}
-		return 0
-	}
-	var rows [][]float64
-	row := func() []float64 { r := make([]float64, 2*parts); rows = append(rows, r); return r }
-	// Offset and slope of part p: w(x) = a_p + b_p·(x − cut_p)/L.
-	for p := 0; p+1 < parts; p++ {
-		r := row() // the deflection is continuous at the hinge
-		r[2*p], r[2*p+1], r[2*(p+1)] = 1, (cuts[p+1]-cuts[p])/L, -1
-		if k := hingeAt(m, cuts[p+1]).Stiffness; k > 0 {
-			r := row() // a spring across it ties the rotations
-			r[2*p+1], r[2*(p+1)+1] = 1, -1
-		}
-	}
+	// The constraints on each part alone, rows on (a_p, b_p).
+	own := make([][][2]float64, parts)
 	for _, s := range m.Supports {
-		p := part(s.X)
+		// The part holding x, the right one at a hinge.
+		p := min(max(sort.SearchFloat64s(cuts, math.Nextafter(s.X, math.Inf(1)))-1, 0), parts-1)
 		if s.Holds(Transverse) {
-			r := row()
-			r[2*p], r[2*p+1] = 1, (s.X-cuts[p])/L
+			own[p] = append(own[p], [2]float64{1, (s.X - cuts[p]) / L})
 		}
 		if s.Holds(Rotation) {
-			r := row()
-			r[2*p+1] = 1
+			own[p] = append(own[p], [2]float64{0, 1})
 		}
 	}
+	// A part with ground under it cannot move: mark the parts each
+	// foundation overlaps, as a count that rises at its first and falls
+	// after its last.
+	grounded := make([]int, parts+1)
 	for _, f := range m.Foundations {
-		if f.Modulus == 0 {
+		if f.Modulus == 0 || !(f.Start < f.End) {
 			continue
 		}
-		for p := range parts { // a part with ground under it cannot move
-			if min(f.End, cuts[p+1]) > max(f.Start, cuts[p]) {
-				r := row()
-				r[2*p] = 1
-				r = row()
-				r[2*p+1] = 1
+		first := max(sort.SearchFloat64s(cuts[1:], math.Nextafter(f.Start, math.Inf(1))), 0) // first part ending after Start
+		last := min(sort.SearchFloat64s(cuts, f.End)-1, parts-1)                             // last part starting before End
+		if first <= last {
+			grounded[first]++
+			grounded[last+1]--
+		}
+	}
+	var sweep chainSweep
+	under := 0
+	for p := range parts {
+		rows := own[p]
+		if under += grounded[p]; under > 0 {
+			rows = append(rows, [2]float64{1, 0}, [2]float64{0, 1})
+		}
+		if p == 0 {
+			sweep.first(rows)
+			continue
+		}
+		// The deflection at the hinge, the end of part p−1, is the start of p's.
+		link := [][2]float64{{1, (cuts[p] - cuts[p-1]) / L}}
+		if hinges[p-1].Stiffness > 0 {
+			link = append(link, [2]float64{0, 1}) // a spring across it ties the rotations
+		}
+		sweep.next(link, rows)
+	}
+	shape := sweep.motion()
+	if shape == nil {
+		return nil
+	}
+	return mechanismError(m, cuts, shape)
+}
+
+// chainSweep finds the null space of constraints on a chain of unknowns
+// (a_p, b_p), p = 0, 1, …, each constraint on one link or on two
+// neighbours, in one pass. After link p it holds an orthonormal basis of
+// the motions of links 0…p that every constraint among them allows, by
+// their coefficients e: link p moves by y·e, and the coefficients of the
+// basis after link p−1 are c·e. A motion that leaves link p still (y·e = 0)
+// allows every later link to stay still too: it is a free motion of the
+// whole chain, kept (as its coefficients after p−1, found) and taken out of
+// the basis, which stays orthonormal as a basis of whole-chain motions, so
+// the motions kept and the basis left at the end are together an
+// orthonormal basis of the null space.
+type chainSweep struct {
+	steps []chainStep
+}
+
+// chainStep is one link of a chainSweep: per basis motion after it, the
+// link's own (a, b) (y) and the coefficients after the link before (c);
+// found is the sum of the free motions that stop at this link, as
+// coefficients after the link before.
+type chainStep struct {
+	y     [][2]float64
+	c     [][]float64
+	found []float64
+}
+
+// nullTolerance is the size, relative to the largest, below which a
+// singular value of a step's constraints counts as zero.
+const nullTolerance = 1e-10
+
+// first starts the sweep with the first link's own constraints.
+func (s *chainSweep) first(rows [][2]float64) {
+	s.steps = append(s.steps[:0], s.step(nil, nil, rows))
+}
+
+// next adds a link: link rows tie the previous link's (a, b), as link·(a,
+// b) = the new link's (a, b) component by component (its offset for the
+// first row, its slope for the second); rows are the new link's own
+// constraints.
+func (s *chainSweep) next(link, rows [][2]float64) {
+	s.steps = append(s.steps, s.step(s.steps[len(s.steps)-1].y, link, rows))
+}
+
+// step solves one link's constraints on the previous basis coefficients
+// and the link's own (a, b), prev being the previous link's y.
+func (s *chainSweep) step(prev [][2]float64, link, rows [][2]float64) chainStep {
+	k := len(prev)
+	n := k + 2
+	var data []float64
+	for i, l := range link {
+		r := make([]float64, n)
+		for j, v := range prev {
+			r[j] = l[0]*v[0] + l[1]*v[1]
+		}
+		r[k+i] = -1
+		data = append(data, r...)
+	}
+	for _, o := range rows {
+		r := make([]float64, n)
+		r[k], r[k+1] = o[0], o[1]
+		data = append(data, r...)
+	}
+	z := nullSpace(len(data)/n, n, data) // columns (c; y) of the allowed motions
+	// Motions that leave this link still: free motions of the chain.
+	zy := make([]float64, 2*len(z))
+	for j, col := range z {
+		zy[j], zy[len(z)+j] = col[k], col[k+1]
+	}
+	var st chainStep
+	if len(z) == 0 {
+		return st
+	}
+	still := nullSpace(2, len(z), zy)
+	moving := complement(len(z), still)
+	for _, e := range still {
+		if st.found == nil {
+			st.found = make([]float64, k)
+		}
+		for j, col := range z {
+			for i := range k {
+				st.found[i] += col[i] * e[j]
 			}
 		}
 	}
-	a := mat.NewDense(max(len(rows), 1), 2*parts, nil)
-	for i, r := range rows {
-		a.SetRow(i, r)
+	for _, e := range moving {
+		col := make([]float64, n)
+		for j, zc := range z {
+			for i := range n {
+				col[i] += zc[i] * e[j]
+			}
+		}
+		st.c = append(st.c, col[:k])
+		st.y = append(st.y, [2]float64{col[k], col[k+1]})
 	}
-	// The singular values alone first: most chains are no mechanism, and
-	// the singular vectors cost the most (U, which nothing reads, most of
-	// all: 400 hinges took 4 s with it).
-	var svd mat.SVD
-	if !svd.Factorize(a, mat.SVDNone) {
+	return st
+}
+
+// motion is a free motion of the whole chain, (a, b) per link: the sum of
+// the orthonormal basis of the null space the sweep found, so that a link
+// any free motion moves moves in it (but for a sum that cancels); nil
+// when the chain cannot move.
+func (s *chainSweep) motion() [][2]float64 {
+	last := len(s.steps) - 1
+	e := make([]float64, len(s.steps[last].y))
+	for i := range e {
+		e[i] = 1
+	}
+	free := len(e) > 0
+	for _, st := range s.steps {
+		free = free || st.found != nil
+	}
+	if !free {
 		return nil
+	}
+	out := make([][2]float64, len(s.steps))
+	for p := last; p >= 0; p-- {
+		st := s.steps[p]
+		for j, y := range st.y {
+			out[p][0] += y[0] * e[j]
+			out[p][1] += y[1] * e[j]
+		}
+		if p == 0 {
+			break
+		}
+		prev := make([]float64, len(s.steps[p-1].y))
+		copy(prev, st.found)
+		for j, c := range st.c {
+			for i, v := range c {
+				prev[i] += v * e[j]
+			}
+		}
+		e = prev
+	}
+	return out
+}
+
+// nullSpace is an orthonormal basis of the null space of the r×n matrix
+// held row by row in data, from gonum's singular value decomposition: n
+// vectors when r is 0.
+func nullSpace(r, n int, data []float64) [][]float64 {
+	if n == 0 {
+		return nil
+	}
+	if r == 0 {
+		return complement(n, nil)
+	}
+	var svd mat.SVD
+	if !svd.Factorize(mat.NewDense(r, n, data), mat.SVDFullV) {
+		return nil // not seen: taken as no free motion, as before
 	}
 	values := svd.Values(nil)
 	rank := 0
 	for _, v := range values {
-		if v > 1e-10*values[0] {
+		if v > nullTolerance*values[0] {
 			rank++
 		}
 	}
-	if len(rows) > 0 && rank == 2*parts {
-		return nil
-	}
-	if !svd.Factorize(a, mat.SVDFullV) {
-		return nil
-	}
 	var v mat.Dense
 	svd.VTo(&v)
-	shape := make([]MechanismPart, parts)
+	var out [][]float64
+	for j := rank; j < n; j++ {
+		out = append(out, mat.Col(nil, j, &v))
+	}
+	return out
+}
+
+// complement is an orthonormal basis of the vectors of length n orthogonal
+// to the orthonormal vectors basis.
+func complement(n int, basis [][]float64) [][]float64 {
+	if len(basis) == 0 {
+		out := make([][]float64, n)
+		for i := range out {
+			out[i] = make([]float64, n)
+			out[i][i] = 1
+		}
+		return out
+	}
+	data := make([]float64, 0, len(basis)*n)
+	for _, b := range basis {
+		data = append(data, b...)
+	}
+	return nullSpace(len(basis), n, data)
+}
+
+// mechanismError names the parts that the free motion shape, (offset,
+// scaled slope) per part between cuts, moves.
+func mechanismError(m *Model, cuts []float64, shape [][2]float64) error {
+	L := m.Length()
+	parts := make([]MechanismPart, len(shape))
 	big := 0.0
-	for p := range shape {
-		off, slope := v.At(2*p, 2*parts-1), v.At(2*p+1, 2*parts-1)/L
-		shape[p] = MechanismPart{Start: cuts[p], End: cuts[p+1], Offset: off, Slope: slope}
+	for p, s := range shape {
+		off, slope := s[0], s[1]/L
+		parts[p] = MechanismPart{Start: cuts[p], End: cuts[p+1], Offset: off, Slope: slope}
 		big = max(big, math.Abs(off), math.Abs(off+slope*(cuts[p+1]-cuts[p])))
 	}
+	features := Features(m)
+	at := make([]float64, len(features))
+	for i, f := range features {
+		at[i] = f.X
+	}
+	slices.Sort(at)
 	var moving []string
-	for p := range shape {
-		s := &shape[p]
+	count := 0
+	for p := range parts {
+		s := &parts[p]
 		s.Offset, s.Slope = s.Offset/big, s.Slope/big
 		if math.Abs(s.Offset) < 1e-9 && math.Abs(s.Slope)*(s.End-s.Start) < 1e-9 {
 			continue
 		}
+		if count++; count > maxPartsNamed {
+			continue
+		}
 		where := fmt.Sprintf("the part from x = %s to %s", fmtMetres(s.Start), fmtMetres(s.End))
-		if parts == 1 {
+		if len(parts) == 1 {
 			where = "the member"
 		}
 		if math.Abs(s.Slope)*(s.End-s.Start) < 1e-9 {
@@ -175,23 +363,19 @@ func hingeMechanism(m *Model) error {
 			continue
 		}
 		pivot := s.Start - s.Offset/s.Slope
-		for _, f := range Features(m) { // a support or hinge there, not its round-off
-			if math.Abs(f.X-pivot) <= 1e-9*L {
-				pivot = f.X
-			}
+		// A support or hinge there, not its round-off.
+		if i := sort.SearchFloat64s(at, pivot-1e-9*L); i < len(at) && at[i] <= pivot+1e-9*L {
+			pivot = at[i]
 		}
 		moving = append(moving, fmt.Sprintf("%s can turn about x = %s", where, fmtMetres(pivot)))
 	}
-	return &MechanismError{Motion: "hinge", Parts: shape,
+	if more := count - maxPartsNamed; more > 0 {
+		moving = append(moving, fmt.Sprintf("and %d more parts can move", more))
+	}
+	return &MechanismError{Motion: "hinge", Parts: parts,
 		Message: fmt.Sprintf("with its hinges the member is a mechanism: %s; add a support under the free part, fix an end, or remove a hinge", strings.Join(moving, ", "))}
 }
 
-// hingeAt is m's hinge at x (the zero Hinge when there is none).
-func hingeAt(m *Model, x float64) Hinge {
-	for _, h := range m.Hinges {
-		if h.X == x {
-			return h
-		}
-	}
-	return Hinge{}
-}
+// maxPartsNamed is how many moving parts a mechanism's message names; it
+// counts the rest.
+const maxPartsNamed = 10

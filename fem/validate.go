@@ -34,6 +34,13 @@ func (e *ValidationError) Error() string {
 	return b.String()
 }
 
+// MaxPatternSpans is the most spans a load case placed by span may cover:
+// the checks solve and check whole each arrangement of loaded spans they
+// try, for every span's check, work that grows with the cube of the spans
+// (30 spans on the automatic mesh took 1.4 s for `stave solve`, 50 took
+// 5.6 s, 200 more than 60 s).
+const MaxPatternSpans = 30
+
 // Memory. Validate refuses a model whose analysis would need more than
 // memoryLimit. The estimate counts what every stage allocates per element
 // and per key point, measured by TestMemoryPerStage as the growth of
@@ -217,6 +224,7 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 		v.add(Place{Item: Item{Kind: CombinationItem, Index: 0}}, "there are combinations but no load cases to combine: add load cases, or delete the combinations")
 	}
 	names := map[string]int{}
+	spans := 0 // the member's spans, counted for the first case placed by span
 	for c, lc := range m.Cases {
 		it := Item{Kind: CaseItem, Index: c}
 		switch prev, seen := names[strings.ToLower(lc.Name)]; {
@@ -229,6 +237,14 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 		}
 		if len(lc.PointLoads) == 0 && len(lc.DistributedLoad) == 0 && !lc.SelfWeight && lc.TemperatureChange == 0 && !lc.Settlements && !lc.ThermalGradient {
 			v.add(Place{Item: it}, fmt.Sprintf("load case %q is empty: add loads to it, or delete it", lc.Name))
+		}
+		if lc.BySpan && lengthKnown {
+			if spans == 0 {
+				spans = len(m.Spans())
+			}
+			if spans > MaxPatternSpans {
+				v.add(Place{Item: it}, fmt.Sprintf("load case %q is placed by span over %d spans, more than the %d Stave arranges (each arrangement of loaded spans is solved and checked whole, so the work grows with the cube of the spans): place it on every span (turn by span off), or check the member in parts", lc.Name, spans, MaxPatternSpans))
+			}
 		}
 		if !isFinite(lc.TemperatureChange) {
 			v.add(Place{Item: it, Property: TemperatureChangeProperty}, fmt.Sprintf("load case %q: the temperature change is %v: enter a finite value in K", lc.Name, lc.TemperatureChange))
@@ -448,38 +464,78 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 }
 
 // firstEarlierAtSamePoint returns for each support the lowest index of an
-// earlier support within tol of it, or −1, both at finite places. The
-// supports are sorted by place, so the ones within tol of a support are
-// next to it: the work grows with their number, not with all pairs.
+// earlier support within tol of it, or −1, both at finite places.
 func firstEarlierAtSamePoint(sups []Support, tol float64) []int {
-	earlier := make([]int, len(sups))
-	order := make([]int, 0, len(sups))
-	for i, s := range sups {
-		earlier[i] = -1
-		if isFinite(s.X) {
-			order = append(order, i)
-		}
-	}
-	if math.IsNaN(tol) {
-		return earlier // no two places compare within it
-	}
-	slices.SortFunc(order, func(a, b int) int { return cmp.Or(cmp.Compare(sups[a].X, sups[b].X), a-b) })
-	lo := 0
-	for _, i := range order {
-		x := sups[i].X
-		for x-sups[order[lo]].X > tol {
-			lo++
-		}
-		for _, j := range order[lo:] {
-			if sups[j].X-x > tol {
-				break
-			}
-			if j < i && (earlier[i] < 0 || j < earlier[i]) {
-				earlier[i] = j
-			}
+	return firstEarlier(places(sups, func(s Support) (float64, bool) { return s.X, true }), tol)
+}
+
+// firstEarlier returns for each place in xs the lowest index of an earlier
+// place within tol of it, or −1.
+func firstEarlier(xs []float64, tol float64) []int {
+	earlier := lowestWithin(xs, xs, tol)
+	for i, j := range earlier {
+		if j >= i {
+			earlier[i] = -1
 		}
 	}
 	return earlier
+}
+
+// places is the position of each item that keep takes, NaN for the others
+// (which lowestWithin leaves out).
+func places[T any](items []T, keep func(T) (float64, bool)) []float64 {
+	out := make([]float64, len(items))
+	for i, it := range items {
+		x, ok := keep(it)
+		if !ok {
+			x = math.NaN()
+		}
+		out[i] = x
+	}
+	return out
+}
+
+// lowestWithin returns for each query the lowest index j of the places xs
+// with |xs[j] − query| ≤ tol, or −1; places and queries that are not
+// finite never match. Both are sorted once, and a window slides over the
+// places with a queue of the candidates for its lowest index, so the work
+// grows as n log n however many places lie together (a look at every pair
+// took minutes for 20,000 hinges at one point).
+func lowestWithin(xs, queries []float64, tol float64) []int {
+	out := make([]int, len(queries))
+	for i := range out {
+		out[i] = -1
+	}
+	finite := func(s []float64) []int {
+		order := make([]int, 0, len(s))
+		for i, x := range s {
+			if isFinite(x) {
+				order = append(order, i)
+			}
+		}
+		slices.SortFunc(order, func(a, b int) int { return cmp.Or(cmp.Compare(s[a], s[b]), a-b) })
+		return order
+	}
+	order, asked := finite(xs), finite(queries)
+	var queue []int // places in the window, in order, each with a lower index than every one after it
+	next := 0       // the first place not yet in the window
+	for _, qi := range asked {
+		q := queries[qi]
+		for ; next < len(order) && xs[order[next]]-q <= tol; next++ {
+			j := order[next]
+			for len(queue) > 0 && queue[len(queue)-1] > j {
+				queue = queue[:len(queue)-1]
+			}
+			queue = append(queue, j)
+		}
+		for len(queue) > 0 && q-xs[queue[0]] > tol {
+			queue = queue[1:]
+		}
+		if len(queue) > 0 {
+			out[qi] = queue[0]
+		}
+	}
+	return out
 }
 
 // shearDeformation checks what a Timoshenko segment needs: a shear area
@@ -512,6 +568,12 @@ func (v *validator) shearDeformation(i int, s Segment) {
 // support leaves the parts joined), a
 // spring stiffness in range, and not on an axial-only member.
 func (v *validator) hinges(m *Model, lengthKnown bool) {
+	xs := places(m.Hinges, func(h Hinge) (float64, bool) { return h.X, true })
+	earlier := firstEarlier(xs, v.tol)
+	// The first support at each hinge that holds the rotation, and the
+	// first that holds the deflection rigidly and lets the member turn.
+	turning := lowestWithin(places(m.Supports, func(s Support) (float64, bool) { return s.X, s.Holds(Rotation) }), xs, v.tol)
+	propping := lowestWithin(places(m.Supports, func(s Support) (float64, bool) { return s.X, !s.Holds(Rotation) && s.Kind.Restrains(Transverse) }), xs, v.tol)
 	for i, h := range m.Hinges {
 		it := Item{Kind: HingeItem, Index: i}
 		at := Place{Item: it, Property: PositionProperty}
@@ -522,20 +584,14 @@ func (v *validator) hinges(m *Model, lengthKnown bool) {
 			v.add(at, fmt.Sprintf("hinge %d is at an end of the member (x = %s), where there is nothing on the other side to release: move it inside the member or remove it", i+1, fmtMetres(h.X)))
 			continue
 		}
-		for j := 0; j < i; j++ {
-			if math.Abs(m.Hinges[j].X-h.X) <= v.tol {
-				v.add(at, fmt.Sprintf("hinges %d and %d %s: keep one hinge per point", j+1, i+1, atOnePoint(m.Hinges[j].X, h.X)))
-			}
+		if j := earlier[i]; j >= 0 {
+			v.add(at, fmt.Sprintf("hinges %d and %d %s: keep one hinge per point", j+1, i+1, atOnePoint(m.Hinges[j].X, h.X)))
 		}
-		for k, s := range m.Supports {
-			if math.Abs(s.X-h.X) > v.tol {
-				continue
-			}
-			if s.Holds(Rotation) {
-				v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), which holds the rotation: it cannot say which side the support holds; move the hinge off the support, or choose a support kind that lets the member turn (pinned, roller)", i+1, k+1, fmtMetres(h.X)))
-			} else if h.Stiffness == 0 && s.Kind.Restrains(Transverse) {
-				v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), a %s support that already lets the member turn there: a pure hinge would cut the member into separate spans; check each span as its own member, move the hinge into the span, or give it a rotational stiffness for a semi-rigid joint over the support", i+1, k+1, fmtMetres(h.X), s.Kind))
-			}
+		if k := turning[i]; k >= 0 {
+			v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), which holds the rotation: it cannot say which side the support holds; move the hinge off the support, or choose a support kind that lets the member turn (pinned, roller)", i+1, k+1, fmtMetres(h.X)))
+		}
+		if k := propping[i]; k >= 0 && h.Stiffness == 0 {
+			v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), a %s support that already lets the member turn there: a pure hinge would cut the member into separate spans; check each span as its own member, move the hinge into the span, or give it a rotational stiffness for a semi-rigid joint over the support", i+1, k+1, fmtMetres(h.X), m.Supports[k].Kind))
 		}
 		k := h.Stiffness
 		stiff := Place{Item: it, Property: StiffnessProperty}
@@ -620,6 +676,9 @@ func freeKindFor(d Dof) string {
 }
 
 func (v *validator) pointLoads(loads []PointLoad, lengthKnown bool) {
+	// The first hinge at each point moment.
+	hinge := lowestWithin(places(v.modelHinges, func(h Hinge) (float64, bool) { return h.X, true }),
+		places(loads, func(p PointLoad) (float64, bool) { return p.X, p.Moment != 0 }), v.tol)
 	for i, p := range loads {
 		at := func(p Property) Place {
 			return Place{Item: Item{Kind: PointLoadItem, Index: i, Case: v.loadCase}, Property: p}
@@ -628,20 +687,11 @@ func (v *validator) pointLoads(loads []PointLoad, lengthKnown bool) {
 		v.finite(at(AxialForceProperty), "the axial force", p.Axial, "N")
 		v.finite(at(TransverseForceProperty), "the transverse force", p.Transverse, "N")
 		v.finite(at(MomentProperty), "the moment", p.Moment, "N·m")
-		v.momentAtHinge(at(PositionProperty), i, p)
-	}
-}
-
-// momentAtHinge refuses a point moment at a hinge: it turns one of the two
-// parts the hinge joins, and the model cannot say which (the solutions
-// would each pick a side, and not the same one).
-func (v *validator) momentAtHinge(at Place, i int, p PointLoad) {
-	if p.Moment == 0 || !isFinite(p.X) {
-		return
-	}
-	for j, h := range v.modelHinges {
-		if math.Abs(h.X-p.X) <= v.tol {
-			v.add(at, fmt.Sprintf("point load %d puts a moment on hinge %d (x = %s), which turns only one of the two parts the hinge joins, and the model cannot say which: move the load a little to the left or the right of the hinge, onto the part it turns", i+1, j+1, fmtMetres(h.X)))
+		// A moment at a hinge turns one of the two parts the hinge joins,
+		// and the model cannot say which (the solutions would each pick a
+		// side, and not the same one).
+		if j := hinge[i]; j >= 0 {
+			v.add(at(PositionProperty), fmt.Sprintf("point load %d puts a moment on hinge %d (x = %s), which turns only one of the two parts the hinge joins, and the model cannot say which: move the load a little to the left or the right of the hinge, onto the part it turns", i+1, j+1, fmtMetres(v.modelHinges[j].X)))
 		}
 	}
 }

@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"runtime"
 	"runtime/debug"
 	"strings"
 	"time"
@@ -22,6 +23,9 @@ type statusError struct {
 
 func (e statusError) Error() string { return e.msg }
 
+// maxWorkersPerCore is the most members `check` analyses at once per core.
+const maxWorkersPerCore = 4
+
 // checkCommand checks a schedule of members, one model file each, on every
 // core: one line per member in the order given, then a summary (package
 // canvas/report/batch). The exit status is the worst member's: 1 when any
@@ -30,7 +34,7 @@ func checkCommand(args []string, stdout, stderr io.Writer) error {
 	fs := newFlagSet("check")
 	asJSON := fs.Bool("json", false, "print the lines and the summary as JSON")
 	asCSV := fs.Bool("csv", false, "print the lines as CSV")
-	workers := fs.Int("workers", 0, "members analysed at once (default: one per core)")
+	workers := fs.Int("workers", 0, "members analysed at once, at most 4 per core (default: one per core)")
 	system := fs.String("units", "", "unit system the text names the checks' places in: SI or US (default: each file's display units; JSON and CSV lengths stay in m)")
 	names, err := parseFiles(fs, args, stdout)
 	if err != nil {
@@ -47,6 +51,8 @@ func checkCommand(args []string, stdout, stderr io.Writer) error {
 		return usageError{"check writes --json or --csv, not both"}
 	case *workers < 0:
 		return usageError{fmt.Sprintf("--workers must be 0 (one per core) or more, got %d", *workers)}
+	case *workers > maxWorkersPerCore*runtime.GOMAXPROCS(0):
+		return usageError{fmt.Sprintf("--workers %d: give at most %d (%d per core here): each worker holds a whole analysis in memory, and more of them than cores only take more memory", *workers, maxWorkersPerCore*runtime.GOMAXPROCS(0), maxWorkersPerCore)}
 	}
 	paths, err := batch.Paths(names)
 	if err != nil {

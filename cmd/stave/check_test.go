@@ -7,7 +7,9 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
+	"runtime"
 	"slices"
+	"strconv"
 	"strings"
 	"testing"
 	"time"
@@ -219,6 +221,10 @@ func TestCheckExitStatus(t *testing.T) {
 		{"a folder holding no model", []string{empty}, 2},
 		{"JSON and CSV at once", []string{"--json", "--csv", demo}, 2},
 		{"a negative number of workers", []string{"--workers", "-1", demo}, 2},
+		// Each worker holds a whole analysis: 10,000 workers on 30 large
+		// members held 2.5 GB where one per core held 0.5 GB.
+		{"more workers than maxWorkersPerCore a core", []string{"--workers", strconv.Itoa(maxWorkersPerCore*runtime.GOMAXPROCS(0) + 1), demo}, 2},
+		{"maxWorkersPerCore workers a core", []string{"--workers", strconv.Itoa(maxWorkersPerCore * runtime.GOMAXPROCS(0)), demo}, 0},
 	} {
 		t.Run(c.name, func(t *testing.T) {
 			code, out, stderr := runStave(t, append([]string{"check"}, c.args...)...)

@@ -1,6 +1,7 @@
 package moving
 
 import (
+	"fmt"
 	"math"
 	"slices"
 	"strings"
@@ -207,6 +208,11 @@ func TestTrainProblems(t *testing.T) {
 		{"millions of positions", func(t *Train) { t.Step = 1e-6 }, "step", "takes 8000001 positions"},
 		{"negative step", func(t *Train) { t.Step = -0.1 }, "step", "enter a step above zero"},
 		{"no loads", func(t *Train) { t.Axles = nil }, "", "no loads"},
+		{"more axles than the envelope's search takes", func(t *Train) {
+			for len(t.Axles) <= MaxAxles {
+				t.Axles = append(t.Axles, Axle{Load: 1e3, Spacing: 1e-3})
+			}
+		}, "axles", fmt.Sprintf("it has %d axles; Stave takes at most %d", MaxAxles+1, MaxAxles)},
 		{"an upward load", func(t *Train) { t.Axles[0].Load = -5 }, "axles[0].load", "above zero"},
 		{"a run that ends before it starts", func(t *Train) { t.From, t.To = 6, 5 }, "to", "after its start"},
 		{"a run off the member", func(t *Train) { t.From = 11 }, "from", "not on the member"},
@@ -228,6 +234,13 @@ func TestTrainProblems(t *testing.T) {
 	}
 	if ps := ok.Problems(10); len(ps) != 0 {
 		t.Errorf("a sound train has problems: %+v", ps)
+	}
+	most := Train{Axles: []Axle{{Load: 1e3}}}
+	for len(most.Axles) < MaxAxles {
+		most.Axles = append(most.Axles, Axle{Load: 1e3, Spacing: 1e-3})
+	}
+	if ps := most.Problems(10); len(ps) != 0 {
+		t.Errorf("a train of %d axles has problems: %+v", MaxAxles, ps)
 	}
 }
 
