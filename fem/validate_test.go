@@ -138,10 +138,10 @@ func TestValidateHostileInput(t *testing.T) {
 		// stretch: 300,000 point loads need at least 300,012 × 23,600 B =
 		// 7.08 GB; 4,294,967,296 / 23,600 = 181,990 key points fit.
 		{"300,000 point loads", func(m *Model) { m.PointLoads = manyPointLoads(300_000, 3) }, place(ModelItem, -1, NoProperty),
-			"the model would need at least 9.4 GB of memory for its 3e+05 key points (ends and breaks of segments, supports, point loads and load points), more than the 4.3 GB allowed: use fewer supports, point loads and load points, or split the member into several models (up to about 1.38e+05 key points fit)"},
+			"the model would need at least 10.0 GB of memory for its 3e+05 key points (ends and breaks of segments, supports, point loads and load points), more than the 4.3 GB allowed: use fewer supports, point loads and load points, or split the member into several models (up to about 1.29e+05 key points fit)"},
 		// Each load case keeps its own solution, so what fits for one case
-		// (1.38e+05 key points, the row above) is shared among 1,000 cases:
-		// 137 key points (it said 1.38e+05, as for one case).
+		// (1.29e+05 key points, the row above) is shared among 1,000 cases:
+		// 129 key points (it once said the one case's figure).
 		{"1,000 load cases of 1,000 point loads", func(m *Model) {
 			loads := manyPointLoads(1000, 3)
 			m.PointLoads = nil
@@ -149,13 +149,13 @@ func TestValidateHostileInput(t *testing.T) {
 				m.Cases = append(m.Cases, LoadCase{Name: "case " + strconv.Itoa(i+1), PointLoads: []PointLoad{p}})
 			}
 		}, place(ModelItem, -1, NoProperty),
-			"key points (ends and breaks of segments, supports, point loads and load points), each solved for 1e+03 load cases, more than the 4.3 GB allowed: use fewer supports, point loads and load points or fewer load cases, or split the member into several models (up to about 137 key points fit for 1e+03 load cases)"},
+			"key points (ends and breaks of segments, supports, point loads and load points), each solved for 1e+03 load cases, more than the 4.3 GB allowed: use fewer supports, point loads and load points or fewer load cases, or split the member into several models (up to about 129 key points fit for 1e+03 load cases)"},
 		// 100,000 point loads take 2.32 GB, which leaves room for
 		// (4,294,967,296 − 100,012 × 23,200) / 400 = 4,936,722 elements.
 		{"ten million elements and 100,000 point loads", func(m *Model) {
 			m.PointLoads, m.Mesh.Elements = manyPointLoads(100_000, 3), 10_000_000
 		}, place(MeshItem, -1, ElementsProperty),
-			"the mesh would need about 7.1 GB of memory (1.01e+07 elements), more than the 4.3 GB allowed: ask for fewer elements or a longer maximum element length (up to about 3.04e+06 elements fit)"},
+			"the mesh would need about 7.3 GB of memory (1.01e+07 elements), more than the 4.3 GB allowed: ask for fewer elements or a longer maximum element length (up to about 2.54e+06 elements fit)"},
 	})
 }
 
