@@ -202,6 +202,16 @@ func columns(m *fem.Model) []column {
 	return out
 }
 
+// Columns are the stretches of m checked for buckling, from and to (m),
+// each the Span of its check.
+func Columns(m *fem.Model) [][2]float64 {
+	var out [][2]float64
+	for _, c := range columns(m) {
+		out = append(out, [2]float64{c.a, c.b})
+	}
+	return out
+}
+
 // bucklingChecks compares the largest compression in each column with its
 // Euler load.
 func bucklingChecks(p *Probe, o Options) []Result {
