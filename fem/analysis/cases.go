@@ -258,8 +258,7 @@ func (c *Cases) finish(a *Analysis, opts check.Options) {
 	}
 	words := make([][]string, len(per))
 	for k := range per {
-		per[k] = slices.Clone(per[k])
-		words[k] = c.patterned(a, k, per[k], opts)
+		per[k], words[k] = c.patterned(a, k, slices.Clone(per[k]), opts)
 	}
 	a.Checks, c.Governing = nil, nil
 	for _, name := range checkNames(per) {
@@ -322,10 +321,12 @@ const patternSteps = 4
 // again from that check's place while the arrangement changes; a check
 // worse than before replaces it in results. It returns, per check, the
 // loaded spans in words ("imposed on spans 1, 3") where an arrangement
-// other than every span loaded gives the check, else "".
-func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check.Options) []string {
+// other than every span loaded gives the check, else "". A column that
+// every span loaded leaves uncompressed, but another arrangement
+// compresses, gets its buckling check from the worst arrangement, added
+// to results.
+func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check.Options) ([]check.Result, []string) {
 	cs := c.Solutions
-	words := make([]string, len(results))
 	var all []int // the shares combination k takes
 	for j, f := range cs.Loads.Factors[k] {
 		if f != 0 {
@@ -333,8 +334,10 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 		}
 	}
 	if len(all) == 0 {
-		return words
+		return results, make([]string, len(results))
 	}
+	results, start := c.arrangedColumns(a, k, all, results, opts)
+	words := make([]string, len(results))
 	exact := cs.FixedExact != nil
 	field := func(fixed bool, j int) fem.Field {
 		switch {
@@ -390,6 +393,9 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 			return f.AxialStress - f.BendingStress
 		}
 		best, bestOn := r, all
+		if start[i] != nil {
+			bestOn = start[i] // a column only that arrangement compresses
+		}
 		// Start from the arrangement that is worst anywhere on the
 		// check's stretch, in closed form: where every span loaded is
 		// worst, another arrangement may be far from the worst.
@@ -398,7 +404,7 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 			chord = line(true, 0)
 		}
 		on := c.worstArrangement(k, r, chord)
-		if !slices.Equal(on, all) {
+		if !slices.Equal(on, bestOn) {
 			if got, ok := c.checkArrangement(a, k, on, r.Name, opts); ok {
 				r = got
 				if worse(r, best) {
@@ -441,7 +447,47 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 			words[i] = c.arrangementWords(&a.Model, k, bestOn)
 		}
 	}
-	return words
+	return results, words
+}
+
+// arrangedColumns adds to results, combination k's checks with every
+// span loaded, the buckling check of each column they lack that some
+// arrangement of the shares (all, those k takes) compresses beyond
+// round-off, from the arrangement that compresses it most (in closed
+// form, fem.CombinationSolutions.Within), each after the check before it
+// there. start holds per check of the new results the arrangement it is
+// from, nil for every span loaded.
+func (c *Cases) arrangedColumns(a *Analysis, k int, all []int, results []check.Result, opts check.Options) (_ []check.Result, start [][]int) {
+	start = make([][]int, len(results))
+	roundOff := check.AxialRoundOff(&a.Model)
+	for _, span := range check.Columns(&a.Model) {
+		is := func(r check.Result) bool { return r.Code == check.CodeBuckling && r.Span == span }
+		if slices.ContainsFunc(results, is) {
+			continue
+		}
+		g := c.Solutions.Within(k, span[0], span[1], [2]float64{})[fem.QAxialForce].Min
+		on := c.loaded(k, g)
+		if on == nil {
+			on = []int{} // no span loaded: nil in start is every span loaded
+		}
+		if -g.Value <= roundOff || slices.Equal(on, all) {
+			continue // no arrangement compresses it, or every span loaded is the worst and made no check
+		}
+		got, ok := c.arrangementChecks(a, k, on, opts)
+		i := slices.IndexFunc(got, is)
+		if !ok || i < 0 {
+			continue
+		}
+		at := 0 // after the nearest check before it that results have
+		for j := i - 1; j >= 0; j-- {
+			if n := slices.IndexFunc(results, func(r check.Result) bool { return r.Name == got[j].Name }); n >= 0 {
+				at = n + 1
+				break
+			}
+		}
+		results, start = slices.Insert(results, at, got[i]), slices.Insert(start, at, on)
+	}
+	return results, start
 }
 
 // worstArrangement is the arrangement of the shares combination k takes
@@ -466,6 +512,13 @@ func (c *Cases) worstArrangement(k int, r check.Result, chord [2]float64) []int 
 	if q == fem.QAxialForce || math.Abs(env[q].Min.Value) > math.Abs(g.Value) {
 		g = env[q].Min
 	}
+	return c.loaded(k, g)
+}
+
+// loaded are the shares of combination k that g loads, as indices into
+// its Loads.Shares, in order.
+func (c *Cases) loaded(k int, g fem.Governing) []int {
+	cs := c.Solutions
 	var on []int
 	for j, sh := range cs.Loads.Shares {
 		if cs.Loads.Factors[k][j] != 0 && slices.Contains(g.Loaded, sh) {
@@ -475,10 +528,20 @@ func (c *Cases) worstArrangement(k int, r check.Result, chord [2]float64) []int 
 	return on
 }
 
-// checkArrangement solves combination k with the shares on loaded and its
-// other shares unloaded, and checks it: the check named name, and whether
-// it was found.
+// checkArrangement is the check named name of arrangementChecks, and
+// whether it was found.
 func (c *Cases) checkArrangement(a *Analysis, k int, on []int, name string, opts check.Options) (check.Result, bool) {
+	results, _ := c.arrangementChecks(a, k, on, opts)
+	i := slices.IndexFunc(results, func(r check.Result) bool { return r.Name == name })
+	if i < 0 {
+		return check.Result{}, false
+	}
+	return results[i], true
+}
+
+// arrangementChecks solves combination k with the shares on loaded and its
+// other shares unloaded, and checks it: its checks, and whether it solved.
+func (c *Cases) arrangementChecks(a *Analysis, k int, on []int, opts check.Options) ([]check.Result, bool) {
 	cs := c.Solutions
 	sols, factors := []*fem.Solution{cs.Fixed[k]}, []float64{1}
 	var exacts []*fem.Exact
@@ -493,23 +556,18 @@ func (c *Cases) checkArrangement(a *Analysis, k int, on []int, name string, opts
 	}
 	s, err := fem.CombineSolutions(sols, factors)
 	if err != nil {
-		return check.Result{}, false
+		return nil, false
 	}
 	var e *fem.Exact
 	if exacts != nil {
 		if e, err = fem.CombineExact(exacts, factors); err != nil {
-			return check.Result{}, false
+			return nil, false
 		}
 	}
 	z := fem.NewSummarizer(s, e)
 	p := check.NewProbe(&a.Model, s, e)
 	fem.Walk(s, e, z, p)
-	for _, r := range p.Results(z.Comparison(), opts) {
-		if r.Name == name {
-			return r, true
-		}
-	}
-	return check.Result{}, false
+	return p.Results(z.Comparison(), opts), true
 }
 
 // arrangementWords names the loaded spans of the shares on, case by case

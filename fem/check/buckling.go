@@ -202,11 +202,21 @@ func columns(m *fem.Model) []column {
 	return out
 }
 
+// Columns are the stretches of m checked for buckling, from and to (m),
+// each the Span of its check.
+func Columns(m *fem.Model) [][2]float64 {
+	var out [][2]float64
+	for _, c := range columns(m) {
+		out = append(out, [2]float64{c.a, c.b})
+	}
+	return out
+}
+
 // bucklingChecks compares the largest compression in each column with its
 // Euler load.
 func bucklingChecks(p *Probe, o Options) []Result {
 	var out []Result
-	roundOff := negligible * axialScale(p.model)
+	roundOff := AxialRoundOff(p.model)
 	h := p.headline()
 	for k, c := range p.columns {
 		compression, where := h.compression[k].value, h.compression[k].x
@@ -266,9 +276,28 @@ func smallestRigidity(m *fem.Model, a, b float64) (float64, bool) {
 // round-off.
 const negligible = 1e-9
 
-// axialScale is the size of the axial forces m can carry: its axial loads
-// summed by magnitude and the largest thermal force EA·|αΔT|, N.
+// AxialRoundOff is the compression at or below which a column of m is
+// taken as not compressed (round-off) and gets no buckling check, N.
+func AxialRoundOff(m *fem.Model) float64 { return negligible * axialScale(m) }
+
+// axialScale is the size of the axial forces m can carry, N: per load set
+// (the model's own loads, or each case's: a model with cases has none of
+// its own), its axial loads summed by magnitude and the largest thermal
+// force EA·|αΔT|, summed over the load sets.
 func axialScale(m *fem.Model) float64 {
+	if len(m.Cases) == 0 {
+		return loadSetAxialScale(m)
+	}
+	scale := 0.0
+	for i := range m.Cases {
+		set := m.LoadSet(i)
+		scale += loadSetAxialScale(&set)
+	}
+	return scale
+}
+
+// loadSetAxialScale is axialScale of a model without cases.
+func loadSetAxialScale(m *fem.Model) float64 {
 	l := fem.GatherLoads(m, fem.KeyPoints(m))
 	scale := 0.0
 	for _, pl := range l.Points {
@@ -277,8 +306,9 @@ func axialScale(m *fem.Model) float64 {
 	for j, p := range l.Axial {
 		scale += (l.Keys[j+1] - l.Keys[j]) * (math.Abs(p[0]) + math.Abs(p[1])) / 2
 	}
+	thermal := 0.0
 	for _, s := range m.Segments {
-		scale = max(scale, s.Material.Elastic*s.Section.Area*math.Abs(s.Material.ThermalExpansion*l.TemperatureChange))
+		thermal = max(thermal, s.Material.Elastic*s.Section.Area*math.Abs(s.Material.ThermalExpansion*l.TemperatureChange))
 	}
-	return scale
+	return max(scale, thermal)
 }
