@@ -210,8 +210,10 @@ var aliases = map[Kind][]Unit{
 var (
 	// lengthMarks are the foot and inch marks, ASCII and typographic.
 	lengthMarks = []Unit{{"'", foot}, {"′", foot}, {"’", foot}, {"\"", inch}, {"″", inch}, {"”", inch}, {"''", inch}}
-	// momentAliases are a force times a length, either way round.
+	// momentAliases are a force times a length, either way round; an
+	// energy and, per radian, a rotational stiffness take them all.
 	momentAliases = []Unit{
+		{"kip·ft", kip * foot}, {"kip·in", kip * inch}, {"lbf·ft", poundForce * foot}, {"lbf·in", poundForce * inch},
 		{"ft·kip", kip * foot}, {"k·ft", kip * foot}, {"ft·k", kip * foot},
 		{"in·kip", kip * inch}, {"k·in", kip * inch}, {"in·k", kip * inch},
 		{"lb·ft", poundForce * foot}, {"ft·lb", poundForce * foot}, {"ft·lbf", poundForce * foot},
@@ -288,7 +290,9 @@ func FormatNumber(v float64) string {
 // number is taken in this system's display unit; a number followed by a
 // unit symbol of q from either system (or a common variant such as N, Pa,
 // mm⁴) is converted from that unit: "12 kN", "3.5 ft", "2.1e5 MPa".
-// Symbols may be typed in ASCII: "kN*m", "kN.m", "mm^4", "in4".
+// Symbols may be typed in ASCII: "kN*m", "kN.m", "kN-m", "mm^4", "in4".
+// US spellings are read too (see aliases): "5 kip-ft", "2 klf", "50 psf",
+// and a length in feet and inches, "12' 3"" or "12 ft 3 in".
 func (s System) Parse(q Kind, text string) (float64, error) {
 	if q < 0 || q >= kindCount {
 		return 0, fmt.Errorf("cannot read %q: unknown quantity %d", text, int(q))
@@ -422,9 +426,9 @@ type term struct {
 // exactSum is the sum of the terms' numbers times their factors, worked
 // out exactly and rounded once: 12 ft is 3.6576 m, where 12 × 0.3048 in
 // floating point is 3.6576000000000004, which a saved file would show, and
-// 12' 3" is 3.7338 m. A factor is taken as the decimal its float64 reads
-// as, which is exact for every factor of a finite decimal (ft, in, kip,
-// kip·ft, lbf·in...). Text too long or an exponent too large for cheap
+// 12' 3" is 3.7338 m. A factor is taken as its long decimal, or else as
+// the decimal its float64 reads as, which is exact for every other factor
+// of a finite decimal (ft, in, kip, in⁴, 1/°F...). Text too long or an exponent too large for cheap
 // exact arithmetic go by the floating-point sum; zero terms add nothing.
 func exactSum(terms ...term) float64 {
 	float := 0.0

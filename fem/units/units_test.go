@@ -391,6 +391,8 @@ func TestParseUSSpellings(t *testing.T) {
 		{SI, RotationalStiffness, "3e4 kip-ft/rad", "3e4", kip + "*" + ft},
 		{SI, RotationalStiffness, "3e4 ft-kips/rad", "3e4", kip + "*" + ft},
 		{SI, Energy, "5 in-kips", "5", kip + "*" + in},
+		{SI, Energy, "5 kip-ft", "5", kip + "*" + ft},
+		{SI, RotationalStiffness, "3e4 lbf·in/rad", "3e4", lbf + "*" + in},
 		// Forces: kips, and lb or lbs for the pound-force.
 		{SI, Force, "3 kips", "3", kip},
 		{USCustomary, Force, "3.5 kips", "3.5", kip},
