@@ -294,6 +294,19 @@ func FormatNumber(v float64) string {
 // US spellings are read too (see aliases): "5 kip-ft", "2 klf", "50 psf",
 // and a length in feet and inches, "12' 3"" or "12 ft 3 in".
 func (s System) Parse(q Kind, text string) (float64, error) {
+	v, err := s.parse(q, text)
+	if err == nil && math.IsInf(v, 0) {
+		// A finite number can be too large once converted: 1e308 MN.
+		return 0, s.notFinite(q, text)
+	}
+	return v, err
+}
+
+func (s System) notFinite(q Kind, text string) error {
+	return fmt.Errorf("expected a finite %s such as %s; got '%s'", q, s.example(q), strings.TrimSpace(text))
+}
+
+func (s System) parse(q Kind, text string) (float64, error) {
 	if q < 0 || q >= kindCount {
 		return 0, fmt.Errorf("cannot read %q: unknown quantity %d", text, int(q))
 	}
@@ -303,7 +316,7 @@ func (s System) Parse(q Kind, text string) (float64, error) {
 		return 0, fmt.Errorf("expected %s such as %s; got '%s'", article(q), s.example(q), strings.TrimSpace(text))
 	}
 	if math.IsInf(v, 0) || math.IsNaN(v) {
-		return 0, fmt.Errorf("expected a finite %s such as %s; got '%s'", q, s.example(q), strings.TrimSpace(text))
+		return 0, s.notFinite(q, text)
 	}
 	if strings.HasPrefix(symbol, ",") {
 		return 0, fmt.Errorf("use a point for decimals, such as 1.5, and no thousands separator; got '%s'", strings.TrimSpace(text))
@@ -428,8 +441,9 @@ type term struct {
 // floating point is 3.6576000000000004, which a saved file would show, and
 // 12' 3" is 3.7338 m. A factor is taken as its long decimal, or else as
 // the decimal its float64 reads as, which is exact for every other factor
-// of a finite decimal (ft, in, kip, in⁴, 1/°F...). Text too long or an exponent too large for cheap
-// exact arithmetic go by the floating-point sum; zero terms add nothing.
+// of a finite decimal (ft, in, kip, in⁴, 1/°F...). Text too long or an
+// exponent too large for cheap exact arithmetic go by the floating-point
+// sum; zero terms add nothing.
 func exactSum(terms ...term) float64 {
 	float := 0.0
 	for _, t := range terms {

@@ -265,6 +265,11 @@ func TestParseErrors(t *testing.T) {
 		{Force, "12 m", "'12 m' is a position, but force is expected here"},
 		{Area, "12 furlongs", "unknown unit 'furlongs' for an area"},
 		{Stress, "1e999 MPa", "expected a finite stress"},
+		// Finite as typed, too large once converted: it read +Inf.
+		{Force, "1e308 MN", "expected a finite force such as 12 kN; got '1e308 MN'"},
+		{Force, "1.7e308 kips", "expected a finite force"},
+		{Stress, "1e303 ksi", "expected a finite stress"},
+		{Modulus, "9e299 GPa", "expected a finite modulus"}, // by the exact product
 		// A decimal comma, or a thousands separator, is not a unit.
 		{Position, "1,5", "use a point for decimals, such as 1.5, and no thousands separator; got '1,5'"},
 		{Force, "1,000 kN", "use a point for decimals, such as 1.5, and no thousands separator; got '1,000 kN'"},
