@@ -506,6 +506,8 @@ func FuzzParse(f *testing.F) {
 	for _, seed := range []string{"12 kN", "5 kip-ft", `12' 3"`, "12 ft 3 in", `-0' 3"`, "6.5e-6 /°F", "3 kips/ft", "12k", `3 1/2"`, "'", `1e999' 1"`, "1' -"} {
 		f.Add(int(Position), seed)
 	}
+	f.Add(int(Force), "1e308 MN")
+	f.Add(int(Moment), "2 ft-lbs")
 	f.Fuzz(func(t *testing.T, kind int, text string) {
 		for _, s := range Systems() {
 			v, err := s.Parse(Kind(kind), text)
