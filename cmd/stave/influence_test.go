@@ -255,6 +255,10 @@ func TestInfluenceCommandMisuse(t *testing.T) {
 		// 1 ft = 0.3048 m exactly, NIST SP 811 Appendix B).
 		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "M", "--at", "100"}, 1, "x = 100 ft is not on the member (0 to 13.12335958 ft)"},
 		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "M", "--at", "-2 in"}, 1, "x = -2 in is not on the member (0 to 13.12335958 ft)"},
+		// Feet and inches: 13' 2" = 158 in = 4.0132 m, past the 4 m span (1 in =
+		// 0.0254 m exactly, NIST SP 811 Appendix B).
+		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "M", "--at", `13' 2"`}, 1, `x = 13' 2" is not on the member (0 to 13.12335958 ft)`},
+		{[]string{"../../testdata/simply_supported_uniform.json", "--quantity", "M", "--at", "2 kips"}, 2, "--at: '2 kips' is a force, but position is expected here"},
 		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "reaction", "--support", "2", "--motion", "rotation"}, 1, "support 2 (roller at x = 13.12 ft) does not hold the rotation"},
 	} {
 		code, _, stderr := runStave(t, append([]string{"influence"}, c.args...)...)

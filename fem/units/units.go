@@ -22,6 +22,8 @@ import (
 	"math/big"
 	"strconv"
 	"strings"
+	"unicode"
+	"unicode/utf8"
 )
 
 // Kind names the kind of a value (a position, a force, a stress...), which
@@ -178,6 +180,57 @@ var extraUnits = map[Kind][]Unit{
 	FoundationModulus:      {{"N/m²", 1}, {"MN/m²", 1e6}, {"kip/in²", kip / (inch * inch)}, {"lbf/in²", poundForce / (inch * inch)}},
 }
 
+// aliases are further spellings Parse reads, as US practice writes them
+// (common practice): kip-ft for kip·ft, plf and klf for lbf/ft and kip/ft,
+// psf, ksf and pcf, lb for the pound-force where a force is meant, F and
+// degF for °F, and the foot and inch marks ' and ". They are read, never
+// shown, so the messages list the symbols of the tables above. "kips" and
+// "lbs" read as kip and lb wherever they stand (see singular); "k" reads as
+// a kip only joined to another unit (k-ft, k/ft), where it cannot be a
+// thousand. The factors are those of the units they spell, NIST SP 811
+// (2008), Appendix B.
+var aliases = map[Kind][]Unit{
+	Position:               lengthMarks,
+	Dimension:              lengthMarks,
+	Deflection:             lengthMarks,
+	Force:                  {{"lb", poundForce}},
+	Moment:                 momentAliases,
+	LineLoad:               {{"plf", poundForce / foot}, {"klf", kip / foot}, {"lb/ft", poundForce / foot}, {"k/ft", kip / foot}, {"k/in", kip / inch}},
+	Stress:                 forcePerSquareFoot,
+	Modulus:                forcePerSquareFoot,
+	Density:                {{"pcf", pound / (foot * foot * foot)}},
+	ThermalExpansion:       {{"1/F", 1 / fahrenheitStep}, {"1/degF", 1 / fahrenheitStep}, {"1/degC", 1}},
+	TemperatureChange:      {{"F", fahrenheitStep}, {"degF", fahrenheitStep}, {"degC", 1}},
+	TranslationalStiffness: {{"k/in", kip / inch}, {"lb/in", poundForce / inch}},
+	RotationalStiffness:    perRadian(momentAliases),
+	Energy:                 momentAliases,
+	FoundationModulus:      forcePerSquareFoot,
+}
+
+var (
+	// lengthMarks are the foot and inch marks, ASCII and typographic.
+	lengthMarks = []Unit{{"'", foot}, {"′", foot}, {"’", foot}, {"\"", inch}, {"″", inch}, {"”", inch}, {"''", inch}}
+	// momentAliases are a force times a length, either way round; an
+	// energy and, per radian, a rotational stiffness take them all.
+	momentAliases = []Unit{
+		{"kip·ft", kip * foot}, {"kip·in", kip * inch}, {"lbf·ft", poundForce * foot}, {"lbf·in", poundForce * inch},
+		{"ft·kip", kip * foot}, {"k·ft", kip * foot}, {"ft·k", kip * foot},
+		{"in·kip", kip * inch}, {"k·in", kip * inch}, {"in·k", kip * inch},
+		{"lb·ft", poundForce * foot}, {"ft·lb", poundForce * foot}, {"ft·lbf", poundForce * foot},
+		{"lb·in", poundForce * inch}, {"in·lb", poundForce * inch}, {"in·lbf", poundForce * inch},
+	}
+	forcePerSquareFoot = []Unit{{"psf", poundForce / (foot * foot)}, {"ksf", kip / (foot * foot)}}
+)
+
+// perRadian is each of us divided by a radian.
+func perRadian(us []Unit) []Unit {
+	out := make([]Unit, len(us))
+	for i, u := range us {
+		out[i] = Unit{u.Symbol + "/rad", u.ToSI}
+	}
+	return out
+}
+
 // Systems lists the display systems, SI first.
 func Systems() []System { return []System{SI, USCustomary} }
 
@@ -237,8 +290,23 @@ func FormatNumber(v float64) string {
 // number is taken in this system's display unit; a number followed by a
 // unit symbol of q from either system (or a common variant such as N, Pa,
 // mm⁴) is converted from that unit: "12 kN", "3.5 ft", "2.1e5 MPa".
-// Symbols may be typed in ASCII: "kN*m", "kN.m", "mm^4", "in4".
+// Symbols may be typed in ASCII: "kN*m", "kN.m", "kN-m", "mm^4", "in4".
+// US spellings are read too (see aliases): "5 kip-ft", "2 klf", "50 psf",
+// and a length in feet and inches, "12' 3"" or "12 ft 3 in".
 func (s System) Parse(q Kind, text string) (float64, error) {
+	v, err := s.parse(q, text)
+	if err == nil && math.IsInf(v, 0) {
+		// A finite number can be too large once converted: 1e308 MN.
+		return 0, s.notFinite(q, text)
+	}
+	return v, err
+}
+
+func (s System) notFinite(q Kind, text string) error {
+	return fmt.Errorf("expected a finite %s such as %s; got '%s'", q, s.example(q), strings.TrimSpace(text))
+}
+
+func (s System) parse(q Kind, text string) (float64, error) {
 	if q < 0 || q >= kindCount {
 		return 0, fmt.Errorf("cannot read %q: unknown quantity %d", text, int(q))
 	}
@@ -248,7 +316,7 @@ func (s System) Parse(q Kind, text string) (float64, error) {
 		return 0, fmt.Errorf("expected %s such as %s; got '%s'", article(q), s.example(q), strings.TrimSpace(text))
 	}
 	if math.IsInf(v, 0) || math.IsNaN(v) {
-		return 0, fmt.Errorf("expected a finite %s such as %s; got '%s'", q, s.example(q), strings.TrimSpace(text))
+		return 0, s.notFinite(q, text)
 	}
 	if strings.HasPrefix(symbol, ",") {
 		return 0, fmt.Errorf("use a point for decimals, such as 1.5, and no thousands separator; got '%s'", strings.TrimSpace(text))
@@ -257,39 +325,152 @@ func (s System) Parse(q Kind, text string) (float64, error) {
 		v = 0 // a typed -0 is zero, not "-0.0 m" in what is said about it
 	}
 	if symbol == "" {
-		return exactProduct(number, v, s.Unit(q).ToSI), nil
+		return exactSum(term{number, v, s.Unit(q).ToSI}), nil
 	}
 	if u, ok := lookUp(q, symbol); ok {
-		return exactProduct(number, v, u.ToSI), nil
+		return exactSum(term{number, v, u.ToSI}), nil
+	}
+	if inches, ok := inchesAfterFeet(symbol); ok {
+		return feetAndInches(q, text, number, v, inches)
 	}
 	if other, ok := kindOf(symbol); ok {
-		return 0, fmt.Errorf("'%s' is %s, but %s is expected here; use one of %s",
-			strings.TrimSpace(text), article(other), q, strings.Join(Accepted(q), ", "))
+		return 0, wrongKind(q, other, text)
+	}
+	if isFraction(text) {
+		return 0, fmt.Errorf("'%s': fractions are not read; type a decimal, such as 3.5 for 3 1/2", strings.TrimSpace(text))
+	}
+	if normalize(symbol) == "k" {
+		return 0, fmt.Errorf("'%s': k alone could be a kip or a thousand; write kip or kN for %s",
+			strings.TrimSpace(text), article(q))
 	}
 	return 0, fmt.Errorf("unknown unit '%s' for %s; use one of %s",
 		symbol, article(q), strings.Join(Accepted(q), ", "))
 }
 
-// exactProduct is the typed decimal number (read as v) times factor,
-// worked out exactly and rounded once: 12 ft is 3.6576 m, where 12 × 0.3048
-// in floating point is 3.6576000000000004, which a saved file would show.
-// The factor is taken as the decimal its float64 reads as, which is exact
-// for every factor of a finite decimal (ft, in, kip, kip·ft, lbf·in...).
-// Text too long or an exponent too large for cheap exact arithmetic, and
-// zero, go by the floating-point product.
-func exactProduct(number string, v, factor float64) float64 {
-	if v == 0 || len(number) > 40 || math.Abs(v) > 1e300 || math.Abs(v) < 1e-300 {
-		return v * factor
+func wrongKind(q, other Kind, text string) error {
+	return fmt.Errorf("'%s' is %s, but %s is expected here; use one of %s",
+		strings.TrimSpace(text), article(other), q, strings.Join(Accepted(q), ", "))
+}
+
+// isFraction tells whether text holds a digit, '/' and a digit, as in
+// 3 1/2" (a unit has a letter or a mark after its '/').
+func isFraction(text string) bool {
+	digit := func(c byte) bool { return c >= '0' && c <= '9' }
+	for i := 1; i+1 < len(text); i++ {
+		if text[i] == '/' && digit(text[i-1]) && digit(text[i+1]) {
+			return true
+		}
 	}
-	if i := strings.IndexAny(number, "eE"); i >= 0 && len(strings.TrimLeft(number[i+1:], "+-")) > 3 {
-		return v * factor
+	return false
+}
+
+// isLength tells the kinds measured in metres, which take feet and inches.
+func isLength(q Kind) bool { return q == Position || q == Dimension || q == Deflection }
+
+// inchesAfterFeet reads the rest of a length in feet and inches, such as
+// 12' 3", 12'-3" or 12 ft 3 in, after its number of feet: it returns the
+// number of inches, unsigned, if symbol is a foot mark or ft, an optional
+// hyphen and that number with an inch mark or in.
+func inchesAfterFeet(symbol string) (string, bool) {
+	for _, mark := range []string{"'", "′", "’", "ft"} {
+		rest, ok := strings.CutPrefix(symbol, mark)
+		if !ok {
+			continue
+		}
+		rest = strings.TrimSpace(rest)
+		if after, ok := strings.CutPrefix(rest, "-"); ok {
+			rest = strings.TrimSpace(after)
+		}
+		if rest == "" || !(rest[0] == '.' || rest[0] >= '0' && rest[0] <= '9') {
+			return "", false
+		}
+		inches, unit := splitNumber(rest)
+		if u, ok := lookUp(Dimension, unit); ok && u.ToSI == inch {
+			return inches, true
+		}
 	}
-	n, ok := new(big.Rat).SetString(number)
-	f, okFactor := new(big.Rat).SetString(strconv.FormatFloat(factor, 'g', -1, 64))
-	if !ok || !okFactor {
-		return v * factor
+	return "", false
+}
+
+// feetAndInches is a length typed in feet and inches: the number of feet
+// (v, typed as number) and of inches, the sign of the feet applying to the
+// whole as it does to 12 ft 3 in written with a minus.
+func feetAndInches(q Kind, text, number string, v float64, inches string) (float64, error) {
+	if !isLength(q) {
+		return 0, wrongKind(q, Position, text)
 	}
-	p, _ := n.Mul(n, f).Float64()
+	in, err := strconv.ParseFloat(inches, 64)
+	if err != nil || in >= 12 {
+		return 0, fmt.Errorf("the inches after the feet in '%s' must be a number under 12, such as 12' 3\"", strings.TrimSpace(text))
+	}
+	if strings.HasPrefix(number, "-") {
+		in, inches = -in, "-"+inches
+	}
+	return exactSum(term{number, v, foot}, term{inches, in, inch}), nil
+}
+
+// longDecimals are the factors that are finite decimals longer than the
+// shortest decimal of their float64: a force in lbf or kip times a length
+// in ft or in (1 lbf·ft = 1.3558179483314004 N·m exactly, whose nearest
+// float64 prints as 1.3558179483314003). Each is keyed by its float64,
+// which is the nearest to the exact product, as the constant expressions
+// of the tables give it.
+var longDecimals = func() map[float64]*big.Rat {
+	out := map[float64]*big.Rat{}
+	for _, force := range []string{"4.4482216152605", "4448.2216152605"} { // lbf, kip
+		for _, length := range []string{"0.3048", "0.0254"} { // ft, in
+			f, _ := new(big.Rat).SetString(force)
+			l, _ := new(big.Rat).SetString(length)
+			f.Mul(f, l)
+			key, _ := f.Float64()
+			out[key] = f
+		}
+	}
+	return out
+}()
+
+// term is a typed decimal number (its text, and v as read) in a unit of
+// factor to SI.
+type term struct {
+	number    string
+	v, factor float64
+}
+
+// exactSum is the sum of the terms' numbers times their factors, worked
+// out exactly and rounded once: 12 ft is 3.6576 m, where 12 × 0.3048 in
+// floating point is 3.6576000000000004, which a saved file would show, and
+// 12' 3" is 3.7338 m. A factor is taken as its long decimal, or else as
+// the decimal its float64 reads as, which is exact for every other factor
+// of a finite decimal (ft, in, kip, in⁴, 1/°F...). Text too long or an
+// exponent too large for cheap exact arithmetic go by the floating-point
+// sum; zero terms add nothing.
+func exactSum(terms ...term) float64 {
+	float := 0.0
+	for _, t := range terms {
+		float += t.v * t.factor
+	}
+	sum := new(big.Rat)
+	for _, t := range terms {
+		if t.v == 0 {
+			continue
+		}
+		if len(t.number) > 40 || math.Abs(t.v) > 1e300 || math.Abs(t.v) < 1e-300 {
+			return float
+		}
+		if i := strings.IndexAny(t.number, "eE"); i >= 0 && len(strings.TrimLeft(t.number[i+1:], "+-")) > 3 {
+			return float
+		}
+		n, ok := new(big.Rat).SetString(t.number)
+		f, okFactor := longDecimals[t.factor]
+		if !okFactor {
+			f, okFactor = new(big.Rat).SetString(strconv.FormatFloat(t.factor, 'g', -1, 64))
+		}
+		if !ok || !okFactor {
+			return float
+		}
+		sum.Add(sum, n.Mul(n, f))
+	}
+	p, _ := sum.Float64()
 	return p
 }
 
@@ -321,14 +502,46 @@ func candidates(q Kind) []Unit {
 	return append([]Unit{SI.Units[q], USCustomary.Units[q]}, extraUnits[q]...)
 }
 
+// lookUp finds the unit of q typed as symbol, among the candidates and
+// then the aliases. A leading '/' reads as "1/" (/°F is 1/°F).
 func lookUp(q Kind, symbol string) (Unit, bool) {
-	key := normalize(symbol)
-	for _, u := range candidates(q) {
+	key := normalize(singular(symbol))
+	if strings.HasPrefix(key, "/") {
+		key = "1" + key
+	}
+	for _, u := range append(candidates(q), aliases[q]...) {
 		if normalize(u.Symbol) == key {
 			return u, true
 		}
 	}
 	return Unit{}, false
+}
+
+// singular reads the plurals "kips" and "lbs", standing as words, as kip
+// and lb: "kips/ft" is kip/ft.
+func singular(symbol string) string {
+	var b strings.Builder
+	word := func(r rune) bool { return unicode.IsLetter(r) || r == '°' }
+	for len(symbol) > 0 {
+		end := strings.IndexFunc(symbol, func(r rune) bool { return !word(r) })
+		if end < 0 {
+			end = len(symbol)
+		}
+		if end == 0 {
+			r, size := utf8.DecodeRuneInString(symbol)
+			b.WriteRune(r)
+			symbol = symbol[size:]
+			continue
+		}
+		switch w := symbol[:end]; w {
+		case "kips", "lbs":
+			b.WriteString(strings.TrimSuffix(w, "s"))
+		default:
+			b.WriteString(w)
+		}
+		symbol = symbol[end:]
+	}
+	return b.String()
 }
 
 func kindOf(symbol string) (Kind, bool) {
@@ -375,11 +588,17 @@ func splitNumber(text string) (number, symbol string) {
 }
 
 // normalize maps the ways a unit can be typed to one spelling: the
-// multiplication dot, '*', '.', spaces and '^' are dropped and superscript
-// digits become plain ones, so "kN·m", "kN*m" and "kN m" all read "kNm".
+// multiplication dot, '*', '.', spaces and '^' are dropped, and so is a
+// hyphen between letters (kip-ft, common practice), and superscript
+// digits become plain ones, so "kN·m", "kN*m", "kN-m" and "kN m" all read
+// "kNm".
 func normalize(symbol string) string {
 	var b strings.Builder
-	for _, r := range symbol {
+	runes := []rune(symbol)
+	for i, r := range runes {
+		if r == '-' && i > 0 && i+1 < len(runes) && unicode.IsLetter(runes[i-1]) && unicode.IsLetter(runes[i+1]) {
+			continue
+		}
 		switch r {
 		case '·', '⋅', '*', '.', ' ', '^':
 		case '²':

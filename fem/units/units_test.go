@@ -3,6 +3,7 @@ package units
 import (
 	"fmt"
 	"math"
+	"math/big"
 	"strconv"
 	"strings"
 	"testing"
@@ -264,6 +265,11 @@ func TestParseErrors(t *testing.T) {
 		{Force, "12 m", "'12 m' is a position, but force is expected here"},
 		{Area, "12 furlongs", "unknown unit 'furlongs' for an area"},
 		{Stress, "1e999 MPa", "expected a finite stress"},
+		// Finite as typed, too large once converted: it read +Inf.
+		{Force, "1e308 MN", "expected a finite force such as 12 kN; got '1e308 MN'"},
+		{Force, "1.7e308 kips", "expected a finite force"},
+		{Stress, "1e303 ksi", "expected a finite stress"},
+		{Modulus, "9e299 GPa", "expected a finite modulus"}, // by the exact product
 		// A decimal comma, or a thousands separator, is not a unit.
 		{Position, "1,5", "use a point for decimals, such as 1.5, and no thousands separator; got '1,5'"},
 		{Force, "1,000 kN", "use a point for decimals, such as 1.5, and no thousands separator; got '1,000 kN'"},
@@ -314,6 +320,222 @@ func TestParseFeetAndInchesExactly(t *testing.T) {
 		got, err := USCustomary.Parse(c.q, c.text)
 		if err != nil || got != c.want {
 			t.Errorf("%q: %.17g (%v), want %.17g", c.text, got, err, c.want)
+		}
+	}
+}
+
+// si is the SI value of a typed decimal number times a factor written as
+// decimals joined by '*' and '/' ("4448.2216152605/0.3048"), worked out
+// exactly and rounded once; finite tells whether the factor is a finite
+// decimal, so that Parse's single rounding must give exactly this.
+func si(t *testing.T, number, factor string) (want float64, finite bool) {
+	t.Helper()
+	v, ok := new(big.Rat).SetString(number)
+	if !ok {
+		t.Fatalf("bad number %q", number)
+	}
+	finite = true
+	for i, part := range strings.FieldsFunc(factor, func(r rune) bool { return r == '*' || r == '/' }) {
+		f, ok := new(big.Rat).SetString(part)
+		if !ok {
+			t.Fatalf("bad factor %q", factor)
+		}
+		divide := i > 0 && factor[strings.Index(factor, part)-1] == '/'
+		if divide {
+			v.Quo(v, f)
+			finite = false
+		} else {
+			v.Mul(v, f)
+		}
+	}
+	want, _ = v.Float64()
+	return want, finite
+}
+
+// US spellings of units, read as the units they spell. The factors are the
+// exact definitions of NIST Special Publication 811 (2008), Appendix B.8
+// (from memory): 1 ft = 0.3048 m, 1 in = 0.0254 m, 1 lb = 0.45359237 kg,
+// 1 lbf = 0.45359237 kg × 9.80665 m/s² = 4.4482216152605 N, 1 kip = 1000
+// lbf; a temperature interval of 1 °F is 5/9 K (B.9, from memory). A factor
+// that is a finite decimal (kip·ft, ft, in) gives the typed value times it
+// exactly, rounded once; a quotient (kip/ft, psf, °F) gives it within the
+// rounding of the factor itself, two units in the last place.
+func TestParseUSSpellings(t *testing.T) {
+	const (
+		lbf    = "4.4482216152605"
+		kip    = "4448.2216152605"
+		ft     = "0.3048"
+		in     = "0.0254"
+		lbMass = "0.45359237"
+	)
+	cases := []struct {
+		s      System
+		q      Kind
+		text   string
+		number string
+		factor string
+	}{
+		// Moments: kip·ft, kip·in, lbf·ft, lbf·in, either way round, hyphenated, plural.
+		{USCustomary, Moment, "5 kip-ft", "5", kip + "*" + ft},
+		{SI, Moment, "5 ft-kip", "5", kip + "*" + ft},
+		{SI, Moment, "5 k-ft", "5", kip + "*" + ft},
+		{SI, Moment, "5 ft-k", "5", kip + "*" + ft},
+		{SI, Moment, "5 kip·ft", "5", kip + "*" + ft},
+		{SI, Moment, "5 kips-ft", "5", kip + "*" + ft},
+		{SI, Moment, "5 ft-kips", "5", kip + "*" + ft},
+		{SI, Moment, "60 kip-in", "60", kip + "*" + in},
+		{SI, Moment, "60 in-kips", "60", kip + "*" + in},
+		{SI, Moment, "60 k-in", "60", kip + "*" + in},
+		// 1200 lbf·ft read 1626.9815379976803 N·m, one unit in the last place
+		// off: the factor went by its float64's shortest decimal,
+		// 1.3558179483314003, not the exact 1.3558179483314004.
+		{SI, Moment, "1200 lbf·ft", "1200", lbf + "*" + ft},
+		{SI, Moment, "1200 lb-ft", "1200", lbf + "*" + ft},
+		{SI, Moment, "1200 ft-lbs", "1200", lbf + "*" + ft},
+		{SI, Moment, "100 in-lb", "100", lbf + "*" + in},
+		{SI, RotationalStiffness, "3e4 kip-ft/rad", "3e4", kip + "*" + ft},
+		{SI, RotationalStiffness, "3e4 ft-kips/rad", "3e4", kip + "*" + ft},
+		{SI, Energy, "5 in-kips", "5", kip + "*" + in},
+		{SI, Energy, "5 kip-ft", "5", kip + "*" + ft},
+		{SI, RotationalStiffness, "3e4 lbf·in/rad", "3e4", lbf + "*" + in},
+		// Forces: kips, and lb or lbs for the pound-force.
+		{SI, Force, "3 kips", "3", kip},
+		{USCustomary, Force, "3.5 kips", "3.5", kip},
+		{SI, Force, "500 lb", "500", lbf},
+		{SI, Force, "500 lbs", "500", lbf},
+		// Line loads: plf, klf, k/ft, kips/ft, lb/ft.
+		{SI, LineLoad, "200 plf", "200", lbf + "/" + ft},
+		{SI, LineLoad, "2 klf", "2", kip + "/" + ft},
+		{SI, LineLoad, "2 k/ft", "2", kip + "/" + ft},
+		{USCustomary, LineLoad, "2 kips/ft", "2", kip + "/" + ft},
+		{SI, LineLoad, "200 lbs/ft", "200", lbf + "/" + ft},
+		{SI, TranslationalStiffness, "10 k/in", "10", kip + "/" + in},
+		// Pressures: psf, ksf, for a stress, a modulus, a foundation modulus.
+		{SI, Stress, "50 psf", "50", lbf + "/" + ft + "/" + ft},
+		{SI, Stress, "2 ksf", "2", kip + "/" + ft + "/" + ft},
+		{SI, Modulus, "500 ksf", "500", kip + "/" + ft + "/" + ft},
+		{SI, FoundationModulus, "2 ksf", "2", kip + "/" + ft + "/" + ft},
+		// Density: pcf, lb/ft³ with the pound as a mass.
+		{SI, Density, "150 pcf", "150", lbMass + "/" + ft + "/" + ft + "/" + ft},
+		{SI, Density, "150 lbs/ft^3", "150", lbMass + "/" + ft + "/" + ft + "/" + ft},
+		// Temperature changes and expansion: degF, F, /°F, 1/F.
+		{SI, TemperatureChange, "18 degF", "18", "5/9"},
+		{SI, TemperatureChange, "18 deg F", "18", "5/9"},
+		{SI, TemperatureChange, "18 F", "18", "5/9"},
+		{USCustomary, TemperatureChange, "18 °F", "18", "5/9"},
+		{USCustomary, TemperatureChange, "10 degC", "10", "1"},
+		{SI, ThermalExpansion, "6.5e-6 /°F", "6.5e-6", "1.8"},
+		{SI, ThermalExpansion, "6.5e-6 1/F", "6.5e-6", "1.8"},
+		{SI, ThermalExpansion, "6.5e-6 /F", "6.5e-6", "1.8"},
+		{SI, ThermalExpansion, "6.5e-6 1/degF", "6.5e-6", "1.8"},
+		{USCustomary, ThermalExpansion, "1.2e-5 /°C", "1.2e-5", "1"},
+		// Feet and inches, for lengths.
+		{SI, Position, "12'", "12", ft},
+		{SI, Position, "12′", "12", ft},
+		{SI, Position, `3"`, "3", in},
+		{SI, Position, "3''", "3", in},
+		{SI, Position, `12' 3"`, "147", in},
+		{SI, Position, `12'3"`, "147", in},
+		{SI, Position, `12'-3"`, "147", in},
+		{SI, Position, "12′ 3″", "147", in},
+		{SI, Position, "12 ft 3 in", "147", in},
+		{SI, Position, "12 ft - 3 in", "147", in},
+		{SI, Position, `-12' 3"`, "-147", in},
+		{SI, Position, `-0' 3"`, "-3", in},
+		{USCustomary, Position, `0' 7.5"`, "7.5", in},
+		{USCustomary, Position, `1e1' 11.25"`, "131.25", in},
+		{SI, Dimension, `14"`, "14", in},
+		{SI, Deflection, `0.75"`, "0.75", in},
+		{USCustomary, Dimension, `1' 2"`, "14", in},
+	}
+	for _, c := range cases {
+		want, finite := si(t, c.number, c.factor)
+		got, err := c.s.Parse(c.q, c.text)
+		if err != nil {
+			t.Errorf("%s Parse(%s, %q): %v", c.s.Name, c.q, c.text, err)
+			continue
+		}
+		tolerance := 0.0
+		if !finite {
+			tolerance = 2 * (math.Nextafter(math.Abs(want), math.Inf(1)) - math.Abs(want))
+		}
+		if math.Abs(got-want) > tolerance {
+			t.Errorf("%s Parse(%s, %q) = %.17g, want %.17g (%s × %s)", c.s.Name, c.q, c.text, got, want, c.number, c.factor)
+		}
+	}
+}
+
+// What is still refused says why: a unit of another kind names its kind.
+func TestParseUSSpellingsRefused(t *testing.T) {
+	cases := []struct {
+		q       Kind
+		text    string
+		message string
+	}{
+		// "12k" is as often twelve thousand as twelve kips.
+		{Force, "3 k", "k alone could be a kip or a thousand; write kip or kN for a force"},
+		{Force, "12k", "'12k': k alone could be a kip or a thousand"},
+		{Force, `12' 3"`, `'12' 3"' is a position, but force is expected here`},
+		{Force, "12 psf", "'12 psf' is a stress, but force is expected here"},
+		{Stress, "150 pcf", "'150 pcf' is a density, but stress is expected here"},
+		{Moment, "2 klf", "'2 klf' is a line load, but moment is expected here"},
+		{Position, "18 degF", "'18 degF' is a temperature change, but position is expected here"},
+		{TemperatureChange, "6.5e-6 /°F", "is a thermal expansion coefficient, but temperature change is expected here"},
+		// lb is the pound-force only where a force is meant: a density is a mass per volume.
+		{Density, "150 lb", "'150 lb' is a force, but density is expected here"},
+		{Position, `12' 13"`, `the inches after the feet in '12' 13"' must be a number under 12`},
+		{Position, `12' 3 1/2"`, "fractions are not read; type a decimal, such as 3.5 for 3 1/2"},
+		{Dimension, `1/2"`, "fractions are not read"},
+		{Position, "12 -ft", "unknown unit '-ft' for a position"},
+		{Position, "12 ft 3", "unknown unit 'ft 3' for a position"},
+	}
+	for _, c := range cases {
+		v, err := SI.Parse(c.q, c.text)
+		if err == nil {
+			t.Errorf("Parse(%s, %q) accepted it as %g", c.q, c.text, v)
+			continue
+		}
+		if !strings.Contains(err.Error(), c.message) {
+			t.Errorf("Parse(%s, %q) error %q, want it to contain %q", c.q, c.text, err, c.message)
+		}
+	}
+}
+
+// Parse never panics, and what it accepts is a finite number.
+func FuzzParse(f *testing.F) {
+	for _, seed := range []string{"12 kN", "5 kip-ft", `12' 3"`, "12 ft 3 in", `-0' 3"`, "6.5e-6 /°F", "3 kips/ft", "12k", `3 1/2"`, "'", `1e999' 1"`, "1' -"} {
+		f.Add(int(Position), seed)
+	}
+	f.Add(int(Force), "1e308 MN")
+	f.Add(int(Moment), "2 ft-lbs")
+	f.Fuzz(func(t *testing.T, kind int, text string) {
+		for _, s := range Systems() {
+			v, err := s.Parse(Kind(kind), text)
+			if err == nil && (math.IsNaN(v) || math.IsInf(v, 0)) {
+				t.Errorf("%s Parse(%d, %q) = %g", s.Name, kind, text, v)
+			}
+		}
+	})
+}
+
+// Every factor of a force in lbf or kip times a length in ft or in, as the
+// tables hold it, is found among the long decimals with its exact value
+// (NIST SP 811 (2008), Appendix B.8 definitions, from memory).
+func TestLongDecimalsAreTheTablesFactors(t *testing.T) {
+	for _, c := range []struct {
+		q      Kind
+		symbol string
+		exact  string
+	}{
+		{Moment, "kip·ft", "1355.8179483314004"},
+		{Moment, "kip·in", "112.9848290276167"},
+		{Moment, "lbf·ft", "1.3558179483314004"},
+		{Moment, "lbf·in", "0.1129848290276167"},
+	} {
+		f, ok := longDecimals[extra(t, c.q, c.symbol).ToSI]
+		want, _ := new(big.Rat).SetString(c.exact)
+		if !ok || f.Cmp(want) != 0 {
+			t.Errorf("%s: long decimal %v (found %v), want %s", c.symbol, f, ok, c.exact)
 		}
 	}
 }
