@@ -331,31 +331,37 @@ func withExact(list []Extreme, ex *extremes, L float64, floor [3]float64) {
 // counted as a force by dividing by the length; the stress, the force on
 // the smallest area or the moment on the smallest section modulus; the
 // displacement, what that force stretches or bends the most flexible
-// segment over the member's length (F·L/EA, F·L³/EI).
+// segment over the member's length (F·L/EA, F·L³/EI). The forces along the
+// member only stretch it and those across it and the moments only bend it
+// (linear theory), so each sets only its own share of the stress and the
+// displacement: a large axial force does not make a real deflection beside
+// it round-off.
 func forceFloor(s *Solution) [3]float64 {
 	m := &s.Model
 	L := m.Length()
-	force, moment := m.ImposedScales()
+	axial, across, moment := m.imposedScales()
 	a := s.Equilibrium.Applied
-	force = max(force, math.Abs(a[Axial]), math.Abs(a[Transverse]))
+	axial = max(axial, math.Abs(a[Axial]))
+	across = max(across, math.Abs(a[Transverse]))
 	moment = max(moment, math.Abs(a[Rotation]))
 	for _, r := range s.Reactions {
-		force = max(force, math.Abs(r.Force[Axial]), math.Abs(r.Force[Transverse]))
+		axial = max(axial, math.Abs(r.Force[Axial]))
+		across = max(across, math.Abs(r.Force[Transverse]))
 		moment = max(moment, math.Abs(r.Force[Rotation]))
 	}
 	if L > 0 {
-		force = max(force, moment/L)
+		across = max(across, moment/L)
 	}
 	stress, displacement := 0.0, 0.0
 	for _, sg := range m.Segments {
 		if sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
-			stress = max(stress, force/sg.Section.Area, force*L*sg.Section.FibreDistance/sg.Section.SecondMoment)
+			stress = max(stress, axial/sg.Section.Area, across*L*sg.Section.FibreDistance/sg.Section.SecondMoment)
 		}
 		if e := sg.Material.Elastic; e > 0 && sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
-			displacement = max(displacement, force*L/(e*sg.Section.Area), force*L*L*L/(e*sg.Section.SecondMoment))
+			displacement = max(displacement, axial*L/(e*sg.Section.Area), across*L*L*L/(e*sg.Section.SecondMoment))
 		}
 	}
-	return [3]float64{force, stress, displacement}
+	return [3]float64{max(axial, across), stress, displacement}
 }
 
 // fieldScale is the size quantity q is measured against: its largest
@@ -402,9 +408,17 @@ func fieldScale(q Quantity, largest *[quantityCount]float64, L float64, floor [3
 // round-off, and these, not that round-off, are the scale to judge their
 // balance by.
 func (m *Model) ImposedScales() (force, moment float64) {
+	axial, across, moment := m.imposedScales()
+	return max(axial, across), moment
+}
+
+// imposedScales are ImposedScales with the force split into the force
+// along the member (temperature change, axial settlement) and the force
+// across it (transverse settlement).
+func (m *Model) imposedScales() (axial, across, moment float64) {
 	L := m.Length()
 	if L <= 0 {
-		return 0, 0
+		return 0, 0, 0
 	}
 	dT := math.Abs(m.TemperatureChange)
 	for _, c := range m.Cases {
@@ -414,16 +428,17 @@ func (m *Model) ImposedScales() (force, moment float64) {
 	for _, sg := range m.Segments {
 		a, e := sg.Material.ThermalExpansion, sg.Material.Elastic
 		ea, ei = math.Max(ea, e*sg.Section.Area), math.Max(ei, e*sg.Section.SecondMoment)
-		force = math.Max(force, e*sg.Section.Area*math.Abs(a)*dT)
+		axial = math.Max(axial, e*sg.Section.Area*math.Abs(a)*dT)
 		if h := sg.Section.depth(); h > 0 {
 			moment = math.Max(moment, e*sg.Section.SecondMoment*math.Abs(a*sg.TemperatureDifference)/h)
 		}
 	}
 	for _, sp := range m.Supports {
-		force = math.Max(force, math.Max(ea*math.Abs(sp.Settlement[Axial])/L, 12*ei*math.Abs(sp.Settlement[Transverse])/(L*L*L)))
+		axial = math.Max(axial, ea*math.Abs(sp.Settlement[Axial])/L)
+		across = math.Max(across, 12*ei*math.Abs(sp.Settlement[Transverse])/(L*L*L))
 		moment = math.Max(moment, math.Max(6*ei*math.Abs(sp.Settlement[Transverse])/(L*L), 4*ei*math.Abs(sp.Settlement[Rotation])/L))
 	}
-	return force, moment
+	return axial, across, moment
 }
 
 // Summarizer gathers a Summary in a walk over a solution (a Visitor): the

@@ -431,3 +431,41 @@ func TestSummaryNamesAStationaryEndAtTheEnd(t *testing.T) {
 		}
 	}
 }
+
+// A small deflection beside a large axial force is a result, not round-off:
+// a simply supported strut (pinned at 0, roller at L) under an axial
+// compression P at its roller end and a small load Q across it at midspan
+// deflects, in linear theory, by Q·L³/(48·EI) at midspan and turns by
+// Q·L²/(16·EI) at its ends (Gere & Goodno, Mechanics of Materials, simple
+// beam with a central point load; the axial force does not bend a straight
+// member in linear theory). The axial force stretches the member by P·L/EA;
+// it bends it by nothing, so it must not set the size a deflection is
+// zeroed against (P·L³/EI, 40 m here, zeroed every deflection below 40 nm).
+func TestSummaryKeepsASmallDeflectionBesideALargeAxialForce(t *testing.T) {
+	const L, E, I, P, Q = 4.0, 200e9, 8e-6, 1e6, 0.01
+	m := &Model{
+		Segments: []Segment{{Start: 0, End: L,
+			Section:  Section{Area: 4e-3, SecondMoment: I, FibreDistance: 0.1},
+			Material: Material{Elastic: E}}},
+		Supports:   []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+		PointLoads: []PointLoad{{X: L, Axial: -P}, {X: L / 2, Transverse: -Q}},
+		Mesh:       MeshSettings{Elements: 8},
+	}
+	sum := Summarize(solveBoth(t, m))
+	for _, c := range []struct {
+		q    Quantity
+		want float64 // the extreme of larger magnitude
+	}{
+		{QDeflection, -Q * L * L * L / (48 * E * I)},
+		{QRotation, Q * L * L / (16 * E * I)},
+	} {
+		x := sum.Extremes[c.q]
+		got := x.Min
+		if c.want > 0 {
+			got = x.Max
+		}
+		if math.Abs(got-c.want) > 1e-9*math.Abs(c.want) {
+			t.Errorf("%s: extreme %g, want %g", c.q, got, c.want)
+		}
+	}
+}
