@@ -2,7 +2,7 @@ package app
 
 import (
 	"fmt"
-	"reflect"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -189,7 +189,7 @@ func (c *casesPanel) refresh() {
 	for k := range names {
 		names[k] = m.LoadSetName(k)
 	}
-	before := [][]string{c.caseSelect.Options, c.showSelect.Options}
+	beforeCases, beforeShow := c.caseSelect.Options, c.showSelect.Options
 	c.caseSelect.Options = names
 	c.caseSelect.SetSelectedIndex(min(w.editCase, len(names)-1))
 	hasCases := len(m.Cases) > 0
@@ -232,7 +232,7 @@ func (c *casesPanel) refresh() {
 		}
 	}
 	c.showSelect.SetSelectedIndex(sel)
-	if c.bar != nil && !reflect.DeepEqual(before, [][]string{c.caseSelect.Options, c.showSelect.Options}) {
+	if c.bar != nil && !(slices.Equal(beforeCases, c.caseSelect.Options) && slices.Equal(beforeShow, c.showSelect.Options)) {
 		c.bar.Refresh()
 	}
 }

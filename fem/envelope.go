@@ -177,6 +177,18 @@ type CombinationSolutions struct {
 	Loads                   *CombinationLoads
 	Fixed, Shares           []*Solution
 	FixedExact, SharesExact []*Exact
+	// tolerances are shareTolerances of Shares, worked out with them
+	// (SolveCombinations).
+	tolerances [][envelopeValues]float64
+}
+
+// shareTolerances are shareTolerances of cs.Shares: those worked out with
+// them, or worked out now where cs was made otherwise.
+func (cs *CombinationSolutions) shareTolerances() [][envelopeValues]float64 {
+	if cs.tolerances == nil {
+		return shareTolerances(cs.Shares)
+	}
+	return cs.tolerances
 }
 
 // SolveCombinations solves the member's envelope on mesh with one
@@ -193,6 +205,9 @@ func (p *Member) SolveCombinations(mesh Mesh) (*CombinationSolutions, error) {
 	cs := &CombinationSolutions{Loads: cl}
 	if cs.Fixed, err = solveAll(cl.Fixed, st.Solve); err == nil {
 		cs.Shares, err = solveAll(cl.ShareLoads, st.Solve)
+	}
+	if err == nil {
+		cs.tolerances = shareTolerances(cs.Shares)
 	}
 	return cs, err
 }
@@ -360,7 +375,7 @@ type envelopePoint struct {
 
 func newEnvelopeWalk(cs *CombinationSolutions) *envelopeWalk {
 	w := &envelopeWalk{cs: cs, fixed: make([]Interval, len(cs.Fixed)), shares: make([]Interval, len(cs.Shares)),
-		sharePoly: make([][envelopeValues]Polynomial, len(cs.Shares)), tolerances: shareTolerances(cs.Shares)}
+		sharePoly: make([][envelopeValues]Polynomial, len(cs.Shares)), tolerances: cs.shareTolerances()}
 	w.degrees = cs.Fixed[0].degrees()
 	if cs.polynomialExact() {
 		w.exact = true
@@ -595,19 +610,27 @@ func (cs *CombinationSolutions) Envelope() *Envelope {
 		w.walkElements()
 	}
 	qs := w.quantities()
-	zeroRoundOff(qs, cs.Fixed[0])
+	zeroRoundOff(qs, slices.Concat(cs.Fixed, cs.Shares))
 	return &Envelope{Exact: w.exact, Quantities: qs, Reactions: cs.reactionEnvelope(), Foundations: cs.foundationEnvelope()}
 }
 
 // zeroRoundOff sets to zero the extremes of qs that are round-off against
-// their field's size (fieldScale, as the summary measures it, with s's
-// loads as the floor): a deflection of 3e-18 m beside one of 30 mm is 0.
-func zeroRoundOff(qs []QuantityEnvelope, s *Solution) {
+// their field's size (fieldScale, as the summary measures it, with the
+// loads of every load set of sets as the floor): a deflection of 3e-18 m
+// beside one of 30 mm is 0.
+func zeroRoundOff(qs []QuantityEnvelope, sets []*Solution) {
 	var largest [quantityCount]float64
 	for _, q := range qs {
 		largest[q.Quantity] = max(math.Abs(q.Max.Value), math.Abs(q.Min.Value))
 	}
-	floor, L := forceFloor(s), s.Model.Length()
+	var floor [3]float64
+	for _, s := range sets {
+		f := forceFloor(s)
+		for k := range floor {
+			floor[k] = max(floor[k], f[k])
+		}
+	}
+	L := sets[0].Model.Length()
 	for i := range qs {
 		scale := fieldScale(qs[i].Quantity, &largest, L, floor)
 		for _, v := range [2]*float64{&qs[i].Max.Value, &qs[i].Min.Value} {
@@ -631,7 +654,7 @@ func (cs *CombinationSolutions) Within(c int, from, to float64, chord [2]float64
 	one := &CombinationSolutions{
 		Loads: &CombinationLoads{Combinations: cs.Loads.Combinations[c : c+1], Spans: cs.Loads.Spans,
 			Fixed: cs.Loads.Fixed[c : c+1], Shares: cs.Loads.Shares, ShareLoads: cs.Loads.ShareLoads, Factors: cs.Loads.Factors[c : c+1]},
-		Fixed: cs.Fixed[c : c+1], Shares: cs.Shares}
+		Fixed: cs.Fixed[c : c+1], Shares: cs.Shares, tolerances: cs.tolerances}
 	if cs.FixedExact != nil {
 		one.FixedExact, one.SharesExact = cs.FixedExact[c:c+1], cs.SharesExact
 	}
@@ -892,7 +915,7 @@ func (cs *CombinationSolutions) Arranged(c int, qs []Quantity, x float64, side S
 		shares[j] = e.At(x, side)
 	}
 	fixed := cs.FixedExact[c].At(x, side)
-	tolerances := shareTolerances(cs.Shares)
+	tolerances := cs.shareTolerances()
 	column, tolerance := make([]float64, n), make([]float64, n)
 	lo, hi = make([]Governing, len(qs)), make([]Governing, len(qs))
 	for k, q := range qs {
@@ -916,9 +939,9 @@ func (cs *CombinationSolutions) ArrangedReaction(c, i int, d Dof) (lo, hi Govern
 	}
 	shares, tolerances := make([]float64, len(cs.SharesExact)), make([]float64, len(cs.SharesExact))
 	for j, e := range cs.SharesExact {
-		shares[j], tolerances[j] = e.Reactions()[i].Force[d], shareTolerance(cs.Shares[j], int(q))
+		shares[j], tolerances[j] = e.reactions[i].Force[d], cs.shareTolerances()[j][q]
 	}
-	lo, hi = cs.worst(c, cs.FixedExact[c].Reactions()[i].Force[d], shares, tolerances)
+	lo, hi = cs.worst(c, cs.FixedExact[c].reactions[i].Force[d], shares, tolerances)
 	x := cs.Fixed[0].Model.Supports[i].X
 	lo.X, hi.X = x, x
 	return lo, hi
@@ -948,7 +971,7 @@ func (cs *CombinationSolutions) At(x float64, side Side, exact bool) EnvelopeSam
 		return cs.Fixed[k].At(x, side)
 	}
 	shares := make([][envelopeValues]float64, len(cs.Shares))
-	tolerances := shareTolerances(cs.Shares)
+	tolerances := cs.shareTolerances()
 	for j := range shares {
 		f := at(j, true)
 		shares[j] = sampleValues(&f)

@@ -472,7 +472,8 @@ func (e *Envelope) Worst(q fem.Quantity) (hi, lo Extreme) {
 	if k < 0 {
 		return Extreme{}, Extreme{}
 	}
-	best, least := e.worstStation(k, true), e.worstStation(k, false)
+	scale := e.scale(k)
+	best, least := e.worstStation(k, true, scale), e.worstStation(k, false, scale)
 	return Extreme{e.Max[k][best], e.Stations[best], e.Placement(e.MaxAt[k][best])},
 		Extreme{e.Min[k][least], e.Stations[least], e.Placement(e.MinAt[k][least])}
 }
@@ -489,10 +490,9 @@ func (e *Envelope) scale(k int) float64 {
 
 // worstStation is the station of the largest (upper) or smallest value of
 // quantity k: the first along the member of values that tie to round-off
-// against the field's size (fem.BeyondField), so that a deflection of
-// 1e-18 m beside a support's 0 does not name a place of its own.
-func (e *Envelope) worstStation(k int, upper bool) int {
-	scale := e.scale(k)
+// against the field's size, scale (fem.BeyondField), so that a deflection
+// of 1e-18 m beside a support's 0 does not name a place of its own.
+func (e *Envelope) worstStation(k int, upper bool, scale float64) int {
 	b := 0
 	for i := range e.Stations {
 		if upper && fem.BeyondField(e.Max[k][i], e.Max[k][b], scale) ||
@@ -637,7 +637,8 @@ func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (
 	if !upper {
 		sign, values, at = -1, e.Min[q], e.MinAt[q]
 	}
-	b, scale := e.worstStation(q, upper), e.scale(q)
+	scale := e.scale(q)
+	b := e.worstStation(q, upper, scale)
 	lo, hi := e.Stations[max(b-1, 0)]+tol, e.Stations[min(b+1, n-1)]-tol
 	x, pos, v := e.Stations[b], at[b], values[b]
 	for c := range maxClimb {

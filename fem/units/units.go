@@ -340,8 +340,8 @@ func (s System) parse(q Kind, text string) (float64, error) {
 		return 0, fmt.Errorf("'%s': fractions are not read; type a decimal, such as 3.5 for 3 1/2", strings.TrimSpace(text))
 	}
 	if normalize(symbol) == "k" {
-		return 0, fmt.Errorf("'%s': k alone could be a kip or a thousand; write kip or kN for %s",
-			strings.TrimSpace(text), article(q))
+		return 0, fmt.Errorf("'%s': k alone could be a kip or a thousand; write the unit in full (for %s: %s)",
+			strings.TrimSpace(text), article(q), strings.Join(Accepted(q), ", "))
 	}
 	return 0, fmt.Errorf("unknown unit '%s' for %s; use one of %s",
 		symbol, article(q), strings.Join(Accepted(q), ", "))

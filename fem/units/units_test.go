@@ -473,7 +473,7 @@ func TestParseUSSpellingsRefused(t *testing.T) {
 		message string
 	}{
 		// "12k" is as often twelve thousand as twelve kips.
-		{Force, "3 k", "k alone could be a kip or a thousand; write kip or kN for a force"},
+		{Force, "3 k", "k alone could be a kip or a thousand; write the unit in full (for a force: "},
 		{Force, "12k", "'12k': k alone could be a kip or a thousand"},
 		{Force, `12' 3"`, `'12' 3"' is a position, but force is expected here`},
 		{Force, "12 psf", "'12 psf' is a stress, but force is expected here"},
