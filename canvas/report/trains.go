@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"sync"
 
 	"stave/fem"
 	"stave/fem/analysis"
@@ -78,10 +79,13 @@ type QuantityWorst struct {
 // cannot be worked out carries why.
 func trainResults(p *storage.Project, in *moving.Influence, mesh fem.Mesh, target *moving.Target, envelope bool) []TrainResult {
 	var out []TrainResult
+	// The combinations solved with every span share, once for every train
+	// that a combination takes.
+	arranged := sync.OnceValues(func() (*fem.CombinationSolutions, error) { return arrangedSolutions(&p.Model) })
 	for i := range p.Trains {
 		t := &p.Trains[i]
 		tr := TrainResult{Train: *t, Label: t.Label(i)}
-		if err := trainResult(p, i, in, mesh, target, envelope, &tr); err != nil {
+		if err := trainResult(p, i, in, mesh, target, envelope, arranged, &tr); err != nil {
 			// The train's own: the others are worked out all the same (an
 			// axle of 1e300 N on one train had every train of the file
 			// reported as not placed).
@@ -94,8 +98,9 @@ func trainResults(p *storage.Project, in *moving.Influence, mesh fem.Mesh, targe
 
 // trainResult works out train i of p into tr: its worst positions for
 // target, when not nil, and its envelope with the combinations that take
-// it, when envelope.
-func trainResult(p *storage.Project, i int, in *moving.Influence, mesh fem.Mesh, target *moving.Target, envelope bool, tr *TrainResult) error {
+// it, when envelope (arranged solves the combinations for them).
+func trainResult(p *storage.Project, i int, in *moving.Influence, mesh fem.Mesh, target *moving.Target, envelope bool,
+	arranged func() (*fem.CombinationSolutions, error), tr *TrainResult) error {
 	t := &p.Trains[i]
 	if err := t.Check(p.Model.Length(), i); err != nil {
 		return err
@@ -117,7 +122,7 @@ func trainResult(p *storage.Project, i int, in *moving.Influence, mesh fem.Mesh,
 	if tr.Worst, err = checkedWorst(&p.Model, t, tr.Envelope); err != nil {
 		return err
 	}
-	tr.Combinations, err = trainCombinations(p, i, in, mesh, tr.Envelope)
+	tr.Combinations, err = trainCombinations(p, i, in, mesh, tr.Envelope, arranged)
 	return err
 }
 
@@ -131,8 +136,10 @@ func trainResult(p *storage.Project, i int, in *moving.Influence, mesh fem.Mesh,
 // shear force at a support), the two sides are combined apart: the train's
 // envelope is taken a little (sideShift of the length) either side of the
 // station, so its largest value meets the cases' field on the same side,
-// and the worse side is kept.
-func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem.Mesh, e *moving.Envelope) ([]TrainCombination, error) {
+// and the worse side is kept. arranged gives the model's combinations
+// solved with every span share, the same for every train.
+func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem.Mesh, e *moving.Envelope,
+	arranged func() (*fem.CombinationSolutions, error)) ([]TrainCombination, error) {
 	m := &p.Model
 	var out []TrainCombination
 	var cs *fem.CombinationSolutions
@@ -145,7 +152,7 @@ func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem
 			}
 			if cs == nil {
 				var err error
-				if cs, err = arrangedSolutions(m); err != nil {
+				if cs, err = arranged(); err != nil {
 					return nil, fmt.Errorf("combination %q with its train: %w", cb.Name, err)
 				}
 				at = sideStations(e.Stations, m.Length())
