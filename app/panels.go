@@ -341,7 +341,7 @@ func (w *Window) setElements(text string) {
 		w.ui.showMesh()
 		return
 	}
-	w.apply("use "+plural(n, "element"), func(m *fem.Model) error { m.Mesh.Elements = n; return nil })
+	w.apply("use "+units.Count(n, "element"), func(m *fem.Model) error { m.Mesh.Elements = n; return nil })
 }
 
 func (w *Window) scaleElements(f float64) {
@@ -364,14 +364,6 @@ func (w *Window) setGrid(text string) {
 	}
 	w.ui.showGrid()
 	w.updateTitle()
-}
-
-// plural is "1 element", "2 elements".
-func plural(n int, noun string) string {
-	if n == 1 {
-		return "1 " + noun
-	}
-	return fmt.Sprintf("%d %ss", n, noun)
 }
 
 func errOr(err error, text string) string {

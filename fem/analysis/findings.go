@@ -411,8 +411,8 @@ func (a *Analysis) MeshText(u units.System) string {
 	s := a.Solution
 	e := s.Equilibrium
 	res := math.Max(math.Abs(e.Residual[0]), math.Abs(e.Residual[1]))
-	text := fmt.Sprintf("%d elements, %d nodes · out of balance %s, %s · condition ≈ %.2g",
-		len(s.Mesh.Elements), len(s.Mesh.X), u.Format(units.Force, res), u.Format(units.Moment, math.Abs(e.Residual[2])), s.Condition)
+	text := fmt.Sprintf("%s, %s · out of balance %s, %s · condition ≈ %.2g",
+		units.Count(len(s.Mesh.Elements), "element"), units.Count(len(s.Mesh.X), "node"), u.Format(units.Force, res), u.Format(units.Moment, math.Abs(e.Residual[2])), s.Condition)
 	if a.summary != nil {
 		text += "\n" + MeshChoice(*a.summary)
 	}

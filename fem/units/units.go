@@ -268,6 +268,14 @@ func (s System) Format(q Kind, vSI float64) string {
 	return FormatNumber(s.ToDisplay(q, vSI)) + " " + s.Unit(q).Symbol
 }
 
+// Count is n of a noun, its plural with an s: "1 element", "2 elements".
+func Count(n int, noun string) string {
+	if n == 1 {
+		return "1 " + noun
+	}
+	return fmt.Sprintf("%d %ss", n, noun)
+}
+
 // FormatNumber writes v with four significant figures, in fixed notation
 // between 0.001 and 10⁶ and in exponent notation outside.
 func FormatNumber(v float64) string {

@@ -539,3 +539,16 @@ func TestLongDecimalsAreTheTablesFactors(t *testing.T) {
 		}
 	}
 }
+
+// Count names one of a noun in the singular and any other number in the
+// plural: "Mesh: 1 element, 2 nodes", not "1 elements".
+func TestCount(t *testing.T) {
+	for _, c := range []struct {
+		n    int
+		want string
+	}{{0, "0 elements"}, {1, "1 element"}, {2, "2 elements"}, {1000, "1000 elements"}} {
+		if got := Count(c.n, "element"); got != c.want {
+			t.Errorf("Count(%d) = %q, want %q", c.n, got, c.want)
+		}
+	}
+}
