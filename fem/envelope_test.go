@@ -477,16 +477,11 @@ func TestEnvelopeZeroAtTheFirstPlace(t *testing.T) {
 // x = 7.999999999999999 m.
 func TestEnvelopeNamesAStationaryEndAtTheEnd(t *testing.T) {
 	const L, w, E, I = 4.0, 10e3, 200e9, 1.6e-5
-	m := &Model{
-		Segments: []Segment{{Start: 0, End: 2 * L,
-			Section:  Section{Area: 0.004, SecondMoment: I, FibreDistance: 0.1},
-			Material: Material{Elastic: E}}},
-		Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}, {X: 2 * L, Kind: Roller}},
-		Cases: []LoadCase{{Name: "imposed", BySpan: true,
-			DistributedLoad: []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -w}, {2 * L, -w}}}}}},
-		Combinations: []Combination{{Name: "pattern", Factors: []CaseFactor{{Case: 0, Factor: 1}}}},
-		Mesh:         MeshSettings{Elements: 64},
-	}
+	m := twoEqualSpans(L, E, I)
+	m.Cases = []LoadCase{{Name: "imposed", BySpan: true,
+		DistributedLoad: []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -w}, {2 * L, -w}}}}}}
+	m.Combinations = []Combination{{Name: "pattern", Factors: []CaseFactor{{Case: 0, Factor: 1}}}}
+	m.Mesh.Elements = 64
 	_, cs := solveCombinations(t, m)
 	r := cs.Envelope().Quantities[QRotation].Max
 	if want := w * L * L * L / (32 * E * I); math.Abs(r.Value-want) > 1e-9*want || r.X != 2*L {

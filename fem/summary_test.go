@@ -416,13 +416,8 @@ func TestCombinedStressExtremesOnAFoundationTakeBothFibres(t *testing.T) {
 // x = 7.999999999999999 m for L = 4 m, the finite element one at 8 m.
 func TestSummaryNamesAStationaryEndAtTheEnd(t *testing.T) {
 	const L, w, E, I = 4.0, 10e3, 200e9, 1.6e-5
-	m := &Model{
-		Segments: []Segment{{Start: 0, End: 2 * L,
-			Section:  Section{Area: 0.004, SecondMoment: I, FibreDistance: 0.1},
-			Material: Material{Elastic: E}}},
-		Supports:        []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}, {X: 2 * L, Kind: Roller}},
-		DistributedLoad: []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{L, -w}, {2 * L, -w}}}},
-	}
+	m := twoEqualSpans(L, E, I)
+	m.DistributedLoad = []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{L, -w}, {2 * L, -w}}}}
 	for _, n := range []int{0, 7, 64} {
 		m.Mesh.Elements = n
 		r := Summarize(solveBoth(t, m)).Extremes[QRotation]
@@ -467,5 +462,16 @@ func TestSummaryKeepsASmallDeflectionBesideALargeAxialForce(t *testing.T) {
 		if math.Abs(got-c.want) > 1e-9*math.Abs(c.want) {
 			t.Errorf("%s: extreme %g, want %g", c.q, got, c.want)
 		}
+	}
+}
+
+// twoEqualSpans is a beam of modulus E and second moment I continuous
+// over two spans L (pinned at 0, rollers at L and 2L), unloaded.
+func twoEqualSpans(L, E, I float64) *Model {
+	return &Model{
+		Segments: []Segment{{Start: 0, End: 2 * L,
+			Section:  Section{Area: 0.004, SecondMoment: I, FibreDistance: 0.1},
+			Material: Material{Elastic: E}}},
+		Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}, {X: 2 * L, Kind: Roller}},
 	}
 }
