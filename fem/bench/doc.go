@@ -43,11 +43,12 @@
 //
 // The pipeline table times what `stave solve --json` waits for on the same
 // two models, stage by stage: reading the model file (storage.Unmarshal),
-// the mesh, the solve, the exact solution, the extremes, the comparison
-// with the exact solution, the checks and the summary as JSON, each stage's
-// share of the whole, and everything after the solve over the solve
-// (post_over_solve). Each walk over the elements is timed on its own there;
-// `stave solve` makes the extremes, the comparison and the checks one walk.
+// the mesh, the solve, the exact solution, the one walk over the elements
+// that feeds the extremes, the comparison with the exact solution and the
+// checks' probes, with the checks, as analysis.Finish makes it, and the
+// summary as JSON; each stage's share of the whole, and everything after
+// the solve over the solve (post_over_solve). The walk's three parts are
+// also timed each in a walk of its own, to show where its time goes.
 // The key-point table times analysis.Solve and analysis.Finish on a beam of
 // 10,000 elements carrying 10 to 10,000 point loads (KeyPointModel), and
 // fits the growth of the time with their number (keypoint_exponent).

@@ -305,7 +305,7 @@ func measureRow(cfg Config, bm benchModel, size int) (Row, error) {
 	if cfg.Parts&EndToEnd != 0 {
 		progress(cfg, "%s model, %d elements: mesh, solve, fields", bm.name, ne)
 		var failed error
-		stages, total := timeStages(reps, cfg.MinBatch, func() []time.Duration {
+		stages, total := timeStages(reps, 3, cfg.MinBatch, func() []time.Duration {
 			t0 := time.Now()
 			mesh, err := fem.BuildMesh(m)
 			t1 := time.Now()

@@ -75,9 +75,11 @@ func pairedRatio(a, b []float64) float64 {
 
 // timeStages is timeOp for an operation made of consecutive stages: op
 // returns the duration of each. It reports the median of each stage and the
-// median of their sum. The collector runs before each batch so garbage from
-// one repetition is not charged to the next.
-func timeStages(reps int, minBatch time.Duration, op func() []time.Duration) (stages []float64, total float64) {
+// median of the sum of the first counted (the stages of the operation; any
+// after them are timed alongside and count in no total). The collector runs
+// before each batch so garbage from one repetition is not charged to the
+// next.
+func timeStages(reps, counted int, minBatch time.Duration, op func() []time.Duration) (stages []float64, total float64) {
 	start := time.Now()
 	n := len(op())
 	batch := batchSize(time.Since(start), minBatch)
@@ -94,7 +96,9 @@ func timeStages(reps int, minBatch time.Duration, op func() []time.Duration) (st
 		for i, d := range sum {
 			s := d.Seconds() / float64(batch)
 			perStage[i] = append(perStage[i], s)
-			totals[r] += s
+			if i < counted {
+				totals[r] += s
+			}
 		}
 	}
 	stages = make([]float64, n)
