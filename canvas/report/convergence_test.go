@@ -43,7 +43,7 @@ func TestConvergenceTheoryOfShearDeformation(t *testing.T) {
 		t.Errorf("energy rate of the last step %.3f, want 1 (the shear strain energy)", table.Energy.Last)
 	}
 	var buf bytes.Buffer
-	WriteConvergenceText(&buf, "shear-flexible beam", table, nil, nil)
+	WriteConvergenceText(&buf, "shear-flexible beam", table, nil, nil, nil)
 	if !strings.Contains(buf.String(), "beams with shear deformation 2 and 1") {
 		t.Errorf("the theory line gives no rate for beams with shear deformation:\n%s", buf.String())
 	}
