@@ -10,6 +10,7 @@ import (
 	"stave/fem"
 	"stave/fem/analysis"
 	"stave/fem/study"
+	"stave/fem/units"
 )
 
 // RateText writes an observed rate (or an effectivity) with two decimals, a
@@ -121,7 +122,7 @@ func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Vers
 			if math.IsNaN(r.Fitted) {
 				return "-"
 			}
-			return fmt.Sprintf("%s (last step %s, fitted from %d elements on)", RateText(r.Fitted), RateText(r.Last), t.Rows[r.From].Elements)
+			return fmt.Sprintf("%s (last step %s, fitted from %s on)", RateText(r.Fitted), RateText(r.Last), units.Count(t.Rows[r.From].Elements, "element"))
 		}
 		fmt.Fprintf(w, "Rates: stress %s; displacement %s; energy %s\n", rate(t.Stress), rate(t.L2), rate(t.Energy))
 		fmt.Fprintln(w, "Theory for smooth solutions (Strang & Fix): linear bars displacement 2, energy 1; quadratic bars 3 and 2; Hermite beams 4 and 2;")

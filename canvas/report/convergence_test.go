@@ -49,6 +49,10 @@ func TestConvergenceTheoryOfShearDeformation(t *testing.T) {
 	if !strings.Contains(buf.String(), "beams with shear deformation 2 and 1") {
 		t.Errorf("the theory line gives no rate for beams with shear deformation:\n%s", buf.String())
 	}
+	// The fit starts from the one-element mesh: it said "1 elements".
+	if !strings.Contains(buf.String(), "fitted from 1 element on") {
+		t.Errorf("the rates do not say the fit starts from 1 element:\n%s", buf.String())
+	}
 }
 
 // The energy error is the square root of the strain energy of the
