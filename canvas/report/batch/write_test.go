@@ -173,26 +173,6 @@ func TestDeflectionText(t *testing.T) {
 	}
 }
 
-// A utilisation past a million is written to three figures, not as the
-// hundreds of digits "%.2f" gives 1e300 (a safety factor of 1e300 in a
-// file), which widened the whole column; ordinary ones keep two decimals.
-func TestUtilisationText(t *testing.T) {
-	for _, c := range []struct {
-		u    float64
-		want string
-	}{
-		{0.0784, "0.08"},
-		{1, "1.00"},
-		{999999.994, "999999.99"},
-		{1e6, "1e+06"},
-		{1e300, "1e+300"},
-	} {
-		if got := utilisationText(c.u); got != c.want {
-			t.Errorf("utilisationText(%g) = %q, want %q", c.u, got, c.want)
-		}
-	}
-}
-
 // The text counts members in words: a batch of one said "check of 1 members".
 func TestMembersInWords(t *testing.T) {
 	for _, c := range []struct {
