@@ -43,12 +43,24 @@ func ratioText(n float64) string {
 	return strconv.FormatFloat(n, 'g', 3, 64)
 }
 
-// deflectionText is a deflection check as "L/250 (limit L/360)".
+// deflectionText is a deflection check as "L/250 (limit L/360)". A
+// deflection past its limit (a ratio below the limit's) that rounds to the
+// limit gets as many decimals as show it below, as check.UtilisationText
+// keeps a failed utilisation above 1.00: "L/359.6 (limit L/360)", never
+// "L/360 (limit L/360)" beside fail.
 func deflectionText(d *Deflection) string {
 	if math.IsInf(float64(d.Ratio), 0) {
 		return fmt.Sprintf("none (limit L/%s)", ratioText(d.LimitRatio))
 	}
-	return fmt.Sprintf("L/%s (limit L/%s)", ratioText(float64(d.Ratio)), ratioText(d.LimitRatio))
+	ratio, limit := float64(d.Ratio), ratioText(d.LimitRatio)
+	text := ratioText(ratio)
+	for decimals := 1; ratio < d.LimitRatio && decimals <= 17; decimals++ {
+		if shown, _ := strconv.ParseFloat(text, 64); shown < d.LimitRatio {
+			break
+		}
+		text = strconv.FormatFloat(ratio, 'f', decimals, 64)
+	}
+	return fmt.Sprintf("L/%s (limit L/%s)", text, limit)
 }
 
 // warningText is the warnings in one cell: why a refused member has no

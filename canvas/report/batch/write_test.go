@@ -165,6 +165,11 @@ func TestDeflectionText(t *testing.T) {
 		{4015.5, 360, "L/4016 (limit L/360)"},
 		{33.333, 180, "L/33.3 (limit L/180)"},
 		{math.Inf(1), 180, "none (limit L/180)"},
+		// A deflection 0.1 % over span/360 fails (utilisation 1.001):
+		// it read "L/360 (limit L/360)" beside fail.
+		{360 / 1.001, 360, "L/359.6 (limit L/360)"},
+		{360 / 1.0000001, 360, "L/359.99996 (limit L/360)"},
+		{360.4, 360, "L/360 (limit L/360)"}, // passes, at the limit
 	} {
 		d := Deflection{Ratio: Ratio(c.ratio), LimitRatio: c.limit}
 		if got := deflectionText(&d); got != c.want {
