@@ -110,7 +110,7 @@ func (w *Window) convergenceText() string {
 	if w.path != "" {
 		name = filepath.Base(w.path)
 	}
-	report.WriteConvergenceText(&b, name, w.convergence.table, nil, nil)
+	report.WriteConvergenceText(&b, name, w.convergence.table, nil, nil, nil)
 	return strings.TrimSuffix(b.String(), "\n")
 }
 

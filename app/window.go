@@ -369,7 +369,7 @@ func (w *Window) sceneInput() canvas.Input {
 		in.Problem, in.Unreliable = "", false
 	}
 	in.Selected, in.HoverX, in.Hovering, in.Highlight = w.selected, w.draw.hoverX, w.draw.hovering, w.highlight
-	in.Cache = &w.draw.cache
+	in.Cache, in.Handles = &w.draw.cache, true
 	return in
 }
 

@@ -42,6 +42,11 @@ type Input struct {
 	// elements can be pointed at (Element handles); the selected element's
 	// span is shaded.
 	NodalLoads *fem.NodalLoads
+	// Handles draws the window's editing handles that mean nothing on
+	// paper: the open circle at the member's end that drags its length,
+	// which on a drawing reads as a pin (on a fixed end, say). Exports
+	// leave it off.
+	Handles bool
 	// Cache, when not nil, keeps sampled results between builds (see Cache).
 	Cache *Cache
 	// Envelope, when not nil, is drawn in the strips instead of Solution

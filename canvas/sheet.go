@@ -435,7 +435,7 @@ func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 	sh.para(fmt.Sprintf("Mesh: %s, %s, bar order %d, condition estimate %.2e. %s",
 		units.Count(sum.Mesh.Elements, "element"), units.Count(sum.Mesh.Nodes, "node"), sum.Mesh.BarOrder, sum.Mesh.Condition, mesh), inkColour)
 	if e := sum.ExactError; e != nil {
-		sh.para(fmt.Sprintf("FE against exact: %s %.2g %% of the largest stress, %s %.2g %%, %s %.2g %%",
+		sh.para(fmt.Sprintf("FE against exact: %s %.3g %% of the largest stress, %s %.3g %%, %s %.3g %%",
 			fem.StressErrorName, 100*e.MaxStressRelative, fem.DisplacementErrorName, 100*e.RelativeL2, fem.EnergyErrorName, 100*e.RelativeEnergy), inkColour)
 	}
 }

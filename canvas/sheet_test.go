@@ -2,6 +2,7 @@ package canvas
 
 import (
 	"bytes"
+	"fmt"
 	"slices"
 	"strings"
 	"testing"
@@ -189,5 +190,34 @@ func TestSheetListsTheTrainsLeftOut(t *testing.T) {
 		if !strings.Contains(all, want) {
 			t.Errorf("the sheet lacks %q:\n%s", want, all)
 		}
+	}
+}
+
+// The sheet gives the error measures with the three significant figures
+// of the solve text and of its own results table: it printed "largest
+// stress error 1 %" under a table whose bending stress reads 1.04 %. Eight
+// Hermite elements on a simply supported beam under a uniform load q have
+// exact nodal displacements, so each element's moment is off by its
+// fixed-end moment q·h²/12 at its ends (AISC, Beam Diagrams and Formulas,
+// beam fixed at both ends, uniformly distributed load): against the
+// largest moment q·L²/8 that is 2/(3·8²) = 1.04 %.
+func TestSheetErrorMeasuresToThreeFigures(t *testing.T) {
+	m := &fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 4,
+			Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: 2e11}}},
+		Supports:        []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}},
+		DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 4, Intensity: -10e3}}}},
+		Mesh:            fem.MeshSettings{Elements: 8},
+	}
+	var lines []string
+	for _, it := range buildSheet(SheetInput{Input: solved(t, m), Notes: SheetNotes{Version: "test"}}).Items {
+		if it.Kind == Text {
+			lines = append(lines, it.Text)
+		}
+	}
+	want := fmt.Sprintf("FE against exact: %s %.3g %% of the largest stress", fem.StressErrorName, 100*2/(3*8.0*8))
+	if all := strings.Join(lines, "\n"); !strings.Contains(all, want) {
+		t.Errorf("the sheet should say %q:\n%s", want, all)
 	}
 }

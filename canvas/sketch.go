@@ -72,8 +72,10 @@ func (b *builder) sketch(lay layoutBands) {
 		b.nodeTicks(y, lay.top)
 	}
 	end := Point{b.sx(l), y}
-	b.circle(end, 4, white, b.colourFor(Ref{Kind: MemberEnd}, inkColour), 1.5)
-	b.symbol(rect{end.X - 5, end.Y - 5, end.X + 5, end.Y + 5})
+	if b.in.Handles {
+		b.circle(end, 4, white, b.colourFor(Ref{Kind: MemberEnd}, inkColour), 1.5)
+		b.symbol(rect{end.X - 5, end.Y - 5, end.X + 5, end.Y + 5})
+	}
 	b.handle(Ref{Kind: MemberEnd}, 6, end)
 	for i, h := range m.Hinges {
 		b.hinge(i, h, y)

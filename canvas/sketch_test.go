@@ -174,3 +174,35 @@ func TestScaleBarLengthIsRound(t *testing.T) {
 		}
 	}
 }
+
+// An open circle at a member's end is the symbol of a pin (common drawing
+// practice, from memory), so the window's handle that drags the member's
+// length, drawn as one, must stay off exported drawings and the sheet: a
+// beam fixed at both ends was drawn with a pin at its right end.
+func TestMemberEndHandleOnlyInTheWindow(t *testing.T) {
+	m := &fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 4, Section: fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: 2e11, ThermalExpansion: 1.2e-5}}},
+		Supports:          []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 4, Kind: fem.Fixed}},
+		TemperatureChange: 30,
+	}
+	v := NewView(1000, 800)
+	v.Fit(m)
+	in := solved(t, m)
+	end := func(s *Scene) bool {
+		x := v.ToScreenX(4)
+		for _, it := range s.Items {
+			if it.Kind == Circle && math.Abs(float64(it.Center.X-x)) < 1 {
+				return true
+			}
+		}
+		return false
+	}
+	if end(Build(in, v)) {
+		t.Error("an export draws a circle at the fixed right end")
+	}
+	in.Handles = true
+	if !end(Build(in, v)) {
+		t.Error("the window draws no handle at the member's end")
+	}
+}

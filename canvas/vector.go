@@ -180,15 +180,16 @@ func drawScene(c vg.Canvas, s *Scene, origin vg.Point, k float64, style paintSty
 					rs = superscriptScale * size
 					y += vg.Length(superscriptRise * size)
 				}
-				txt := run.text
+				txt, shown := run.text, run.text
 				if style == forPDF {
-					txt = codePage1252(txt)
+					shown = spellFor1252(txt)
+					txt = codePage1252(shown)
 				}
 				c.FillString(f, vg.Point{X: at.X, Y: y}, txt)
 				if overprint {
 					c.FillString(f, vg.Point{X: at.X + vg.Length(0.045*rs), Y: y}, txt)
 				}
-				at.X += f.Width(run.text)
+				at.X += f.Width(shown)
 			}
 		}
 	}
@@ -269,23 +270,44 @@ func (c straightAlpha) RGBA() (r, g, b, a uint32) {
 	return uint32(c.R) * 0x101, uint32(c.G) * 0x101, uint32(c.B) * 0x101, uint32(c.A) * 0x101
 }
 
-// codePage1252 re-encodes s for vgpdf's text, with "?" for what the code
-// page lacks.
+// codePage1252 re-encodes s for vgpdf's text, spelt as spellFor1252 spells
+// it.
 func codePage1252(s string) string {
-	out, err := charmap.Windows1252.NewEncoder().String(s)
-	if err == nil {
-		return out
+	// spellFor1252 leaves nothing the code page lacks: no error.
+	out, _ := charmap.Windows1252.NewEncoder().String(spellFor1252(s))
+	return out
+}
+
+// spellFor1252 spells what code page 1252 lacks in the texts Stave writes
+// in what it has (pdfSpelling), anything else as "?".
+func spellFor1252(s string) string {
+	enc := charmap.Windows1252.NewEncoder()
+	if _, err := enc.String(s); err == nil {
+		return s
 	}
 	var b strings.Builder
-	enc := charmap.Windows1252.NewEncoder()
 	for _, r := range s {
-		if e, err := enc.String(string(r)); err == nil {
-			b.WriteString(e)
+		if _, err := enc.String(string(r)); err == nil {
+			b.WriteRune(r)
+		} else if spelt, ok := pdfSpelling[r]; ok {
+			b.WriteString(spelt)
 		} else {
 			b.WriteByte('?')
 		}
 	}
 	return b.String()
+}
+
+// pdfSpelling spells the characters of Stave's texts that code page 1252
+// lacks: the minus sign of "FE − exact", the Greek letters of section and
+// material symbols (κ, ν) and of formulas (π²EI/(KL)², δ = PL³/(3EI)),
+// comparisons and foot and inch marks. The PDF's "FE ? exact" read as a
+// question.
+var pdfSpelling = map[rune]string{
+	'−': "-", '∓': "-/+", '≤': "<=", '≥': ">=", '≈': "~", '→': "->", '⋅': "·", '′': "'", '″': "\"", 'ℓ': "l",
+	'α': "alpha", 'β': "beta", 'γ': "gamma", 'δ': "delta", 'Δ': "Delta", 'ε': "epsilon", 'η': "eta", 'θ': "theta",
+	'κ': "kappa", 'λ': "lambda", 'ν': "nu", 'ξ': "xi", 'π': "pi", 'ρ': "rho", 'σ': "sigma", 'Σ': "Sigma",
+	'τ': "tau", 'φ': "phi", 'ω': "omega",
 }
 
 // Rasterize paints the scene's shapes, without text, into a w × h image on a

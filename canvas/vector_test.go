@@ -6,6 +6,7 @@ import (
 	"math"
 	"testing"
 
+	"golang.org/x/text/encoding/charmap"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/recorder"
 )
@@ -91,4 +92,46 @@ func TestNonFiniteItemsAreLeftOut(t *testing.T) {
 			}
 		}
 	}
+}
+
+// The PDF's text is in code page 1252 (the PDF writer's only encoding),
+// which lacks the minus sign U+2212 and the Greek letters (the Windows-1252
+// code chart, from memory): the sheet's warnings read "FE ? exact 0 mm" and
+// a Timoshenko segment "κ 0.4000, ν 0.3000" came out "? 0.4000, ? 0.3000".
+// They are spelt in the characters the code page has, and the next run
+// starts where the spelt text ends.
+func TestPDFTextSpellsWhatCodePage1252Lacks(t *testing.T) {
+	const size = 10
+	s := &Scene{Width: 800, Height: 100, Items: []Item{
+		{Kind: Text, Text: "FE − exact 0 mm; κ 0.4000, ν 0.3000; π²EI/(KL)²; δ ≤ L/360 at 10⁻³", At: Point{X: 10, Y: 10}, Size: size, Stroke: color.NRGBA{A: 255}},
+	}}
+	var rec recorder.Canvas
+	drawScene(&rec, s, vg.Point{Y: 100}, 1, forPDF)
+	var drawn []*recorder.FillString
+	for _, a := range rec.Actions {
+		if f, ok := a.(*recorder.FillString); ok {
+			drawn = append(drawn, f)
+		}
+	}
+	var got string
+	for _, f := range drawn {
+		got += f.String
+	}
+	const want = "FE - exact 0 mm; kappa 0.4000, nu 0.3000; pi2EI/(KL)2; delta <= L/360 at 10-3" // ² and ⁻³ are raised runs
+	if got != want {
+		t.Errorf("PDF text %q, want %q", got, want)
+	}
+	for i := 1; i < len(drawn); i++ {
+		prev := drawn[i-1]
+		f := textFace(float32(prev.Size), false)
+		end := prev.Point.X + f.Width(decode1252(prev.String))
+		if math.Abs(float64(drawn[i].Point.X-end)) > 1e-9 {
+			t.Errorf("run %q starts at x = %v, the run before it ends at %v", drawn[i].String, drawn[i].Point.X, end)
+		}
+	}
+}
+
+func decode1252(s string) string {
+	out, _ := charmap.Windows1252.NewDecoder().String(s)
+	return out
 }

@@ -10,6 +10,7 @@ import (
 	"stave/fem"
 	"stave/fem/analysis"
 	"stave/fem/study"
+	"stave/fem/units"
 )
 
 // RateText writes an observed rate (or an effectivity) with two decimals, a
@@ -52,9 +53,10 @@ func rateOf(r study.Rate) rateJSON {
 
 // WriteConvergenceJSON writes the convergence study t of the model in file
 // path and, when v is not nil, the adaptive refinement beside uniform
-// refinement, as JSON with the findings of the analysis of the model on its
-// own mesh (its warnings) and the caution.
-func WriteConvergenceJSON(w io.Writer, path string, t study.Table, v *study.Versus, findings []analysis.Finding) error {
+// refinement (or why that comparison failed, uniformErr), as JSON with the
+// findings of the analysis of the model on its own mesh (its warnings) and
+// the caution.
+func WriteConvergenceJSON(w io.Writer, path string, t study.Table, v *study.Versus, uniformErr error, findings []analysis.Finding) error {
 	rows := make([]convergenceRowJSON, len(t.Rows))
 	for i, r := range t.Rows {
 		rows[i] = convergenceRowJSON{r.PerStretch, r.Elements, r.MaxStress, r.L2, r.Energy,
@@ -79,10 +81,13 @@ func WriteConvergenceJSON(w io.Writer, path string, t study.Table, v *study.Vers
 			its[i] = map[string]any{"elements": it.Elements, "estimated": it.Estimated, "true": it.True, "effectivity": jsonNumber(it.Effectivity)}
 		}
 		adaptive := map[string]any{
-			"iterations": its, "reached": v.Adaptive.Reached, "true_error": v.AdaptiveTrue, "exact_for_model": v.Exact,
+			"iterations": its, "reached": v.Adaptive.Reached, "at_round_off": v.Adaptive.AtRoundOff,
+			"true_error": v.AdaptiveTrue, "exact_for_model": v.Exact,
 			"uniform_elements_for_same_error": nil, "uniform_true_error": nil,
 		}
-		if !v.Exact {
+		if uniformErr != nil {
+			adaptive["uniform_not_compared"] = uniformErr.Error()
+		} else if !v.Exact {
 			adaptive["uniform_elements_for_same_error"], adaptive["uniform_true_error"] = v.UniformElements, v.UniformTrue
 		}
 		out["adaptive"] = adaptive
@@ -93,10 +98,11 @@ func WriteConvergenceJSON(w io.Writer, path string, t study.Table, v *study.Vers
 // WriteConvergenceText writes the convergence study t of the model named
 // name as a table of errors and rates, the rates fitted over the
 // asymptotic rows and of the last step beside theory's, then (when v is not
-// nil) the adaptive refinement, the warnings among findings (of the
+// nil) the adaptive refinement with why its comparison with uniform
+// refinement failed (uniformErr), the warnings among findings (of the
 // analysis of the model on its own mesh; none shown when nil) and the
 // caution.
-func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Versus, findings []analysis.Finding) {
+func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Versus, uniformErr error, findings []analysis.Finding) {
 	fmt.Fprintf(w, "Convergence of %s against the exact solution of the same model\n", name)
 	if t.Exact {
 		fmt.Fprintf(w, "The finite element answer is exact for this model on every mesh tried (%d to %d elements): its errors are round-off, below %.0e,\n",
@@ -116,7 +122,7 @@ func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Vers
 			if math.IsNaN(r.Fitted) {
 				return "-"
 			}
-			return fmt.Sprintf("%s (last step %s, fitted from %d elements on)", RateText(r.Fitted), RateText(r.Last), t.Rows[r.From].Elements)
+			return fmt.Sprintf("%s (last step %s, fitted from %s on)", RateText(r.Fitted), RateText(r.Last), units.Count(t.Rows[r.From].Elements, "element"))
 		}
 		fmt.Fprintf(w, "Rates: stress %s; displacement %s; energy %s\n", rate(t.Stress), rate(t.L2), rate(t.Energy))
 		fmt.Fprintln(w, "Theory for smooth solutions (Strang & Fix): linear bars displacement 2, energy 1; quadratic bars 3 and 2; Hermite beams 4 and 2;")
@@ -126,7 +132,7 @@ func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Vers
 	}
 	if v != nil {
 		fmt.Fprintln(w)
-		WriteAdaptiveText(w, *v, nil)
+		WriteAdaptiveText(w, *v, uniformErr)
 	}
 	if findings != nil {
 		fmt.Fprintln(w, "\nThe model on its own mesh, checked as `stave solve` checks it:")
@@ -146,7 +152,10 @@ func WriteAdaptiveText(w io.Writer, v study.Versus, uniformErr error) {
 		fmt.Fprintf(tw, "%d\t%.3e\t%.3e\t%s\t\n", it.Elements, it.Estimated, it.True, RateText(it.Effectivity))
 	}
 	tw.Flush()
-	if !v.Adaptive.Reached {
+	switch {
+	case v.Adaptive.AtRoundOff:
+		fmt.Fprintln(w, "The target was not reached: the true error met the round-off of the last mesh (its condition estimate times ε), which finer meshes only raise.")
+	case !v.Adaptive.Reached:
 		fmt.Fprintln(w, "The target was not reached within the element limit.")
 	}
 	switch {

@@ -3,12 +3,14 @@ package report
 import (
 	"bytes"
 	"context"
+	"fmt"
 	"math"
 	"strings"
 	"testing"
 
 	"stave/fem"
 	"stave/fem/study"
+	"stave/fem/units"
 )
 
 // The theory line of the convergence text must cover what a model with
@@ -43,8 +45,52 @@ func TestConvergenceTheoryOfShearDeformation(t *testing.T) {
 		t.Errorf("energy rate of the last step %.3f, want 1 (the shear strain energy)", table.Energy.Last)
 	}
 	var buf bytes.Buffer
-	WriteConvergenceText(&buf, "shear-flexible beam", table, nil, nil)
+	WriteConvergenceText(&buf, "shear-flexible beam", table, nil, nil, nil)
 	if !strings.Contains(buf.String(), "beams with shear deformation 2 and 1") {
 		t.Errorf("the theory line gives no rate for beams with shear deformation:\n%s", buf.String())
+	}
+	// The fit starts from the one-element mesh: it said "1 elements".
+	if !strings.Contains(buf.String(), "fitted from 1 element on") {
+		t.Errorf("the rates do not say the fit starts from 1 element:\n%s", buf.String())
+	}
+}
+
+// The energy error is the square root of the strain energy of the
+// difference over the square root of the strain energy (fem.ErrorNorms,
+// docs/json.md), and the solve text must say so: it named the strain
+// energies themselves. One Hermite element on a simply supported beam under
+// a uniform load q: the nodal rotations are exact, so the element's moment
+// is the constant qL²/12 against the exact qx(L − x)/2 (Gere & Goodno,
+// simple beam, uniform load), whose strain energy ∫M²/(2EI) is q²L⁵/(240EI)
+// while the difference's is q²L⁵/(1440EI): a ratio of 1/6 (integrated by
+// hand), printed as its square root, 40.8 %, not as 16.7 %.
+func TestEnergyErrorIsNamedAsTheSquareRoot(t *testing.T) {
+	m := fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 4,
+			Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: 2e11}}},
+		Supports:        []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}},
+		DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 4, Intensity: -10e3}}}},
+		Mesh:            fem.MeshSettings{Elements: 1},
+	}
+	s, err := fem.Solve(&m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	e, err := fem.SolveExact(&m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var buf bytes.Buffer
+	WriteErrorText(&buf, fem.Compare(s, e), units.SI)
+	var line string
+	for _, l := range strings.Split(buf.String(), "\n") {
+		if strings.Contains(l, fem.EnergyErrorName) {
+			line = l
+		}
+	}
+	want := fmt.Sprintf("%.3g %%", 100*math.Sqrt(1.0/6))
+	if !strings.HasSuffix(line, want) || !strings.Contains(line, "(square root of the strain energy of the difference), as a share of the square root of the strain energy") {
+		t.Errorf("the energy error line %q: want %s named as the square root of the strain energy of the difference over that of the strain energy", line, want)
 	}
 }

@@ -45,12 +45,13 @@ func convergeCommand(args []string, stdout io.Writer) error {
 		return modelError{fmt.Errorf("%s: %w", path, err)}
 	}
 	var versus *study.Versus
+	var uniformErr error
 	if *target > 0 {
 		v, err := study.AgainstUniform(ctx, &p.Model, *target, 100000, 100000)
-		if err != nil {
+		if err != nil && len(v.Adaptive.Iterations) == 0 {
 			return modelError{fmt.Errorf("%s: %w", path, err)}
 		}
-		versus = &v
+		versus, uniformErr = &v, err
 	}
 	r := report.Request(p, nil)
 	if sys.Name != "" {
@@ -62,11 +63,11 @@ func convergeCommand(args []string, stdout io.Writer) error {
 	}
 	findings := a.Findings()
 	if *asJSON {
-		if err := report.WriteConvergenceJSON(stdout, path, table, versus, findings); err != nil {
+		if err := report.WriteConvergenceJSON(stdout, path, table, versus, uniformErr, findings); err != nil {
 			return err
 		}
 	} else {
-		report.WriteConvergenceText(stdout, path, table, versus, findings)
+		report.WriteConvergenceText(stdout, path, table, versus, uniformErr, findings)
 	}
 	return inDocument(failures(path, findings), *asJSON)
 }

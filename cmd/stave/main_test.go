@@ -357,6 +357,34 @@ func TestConvergeTargetMisuse(t *testing.T) {
 	}
 }
 
+// A target the ground beam cannot reach before round-off (its condition
+// grows as h⁻⁴; relative errors of condition·ε are possible: Golub & Van
+// Loan, the sensitivity of a linear system, from memory) ran the adaptive
+// refinement on to a singular matrix, and converge printed nothing of its
+// study, only that error, with exit 1. The study is printed with the
+// refinement stopped at round-off, in the text and in the JSON.
+func TestConvergeTargetBelowRoundOff(t *testing.T) {
+	const file = "../../testdata/ground_beam_foundation.json"
+	code, out, stderr := runStave(t, "converge", "--max", "4", "--target", "1e-7", file)
+	if code != 0 || !strings.Contains(out, "Adaptive refinement") || !strings.Contains(out, "the true error met the round-off of the last mesh") {
+		t.Errorf("text: exit %d, stderr %q\n%s", code, stderr, out)
+	}
+	code, out, stderr = runStave(t, "converge", "--json", "--max", "4", "--target", "1e-7", file)
+	var got struct {
+		Adaptive struct {
+			Reached    bool    `json:"reached"`
+			AtRoundOff bool    `json:"at_round_off"`
+			True       float64 `json:"true_error"`
+		} `json:"adaptive"`
+	}
+	if err := json.Unmarshal([]byte(out), &got); err != nil || code != 0 {
+		t.Fatalf("JSON: exit %d, %v, stderr %q", code, err, stderr)
+	}
+	if got.Adaptive.Reached || !got.Adaptive.AtRoundOff || !(got.Adaptive.True > 1e-7) {
+		t.Errorf("JSON: %+v, want not reached, at round-off, above the target", got.Adaptive)
+	}
+}
+
 func TestConvergeJSON(t *testing.T) {
 	code, out, stderr := runStave(t, "converge", "--json", "--max", "8", "../../testdata/simply_supported_uniform.json")
 	// The model's 20.8 mm deflection is beyond span/360 = 11.1 mm (common

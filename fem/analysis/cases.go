@@ -253,6 +253,19 @@ func (c *Cases) finish(a *Analysis, opts check.Options) {
 		c.Summaries = append(c.Summaries, z.Summary())
 		per[k] = p.Results(z.Comparison(), opts)
 	}
+	if c.Show.Kind == ShowCombination {
+		// The combination shown alone: its results are with every span
+		// loaded, its checks from the worst arrangement, as the
+		// envelope's are, named where that is not every span loaded.
+		checks, words := c.patterned(a, c.Show.Index, slices.Clone(a.Checks), opts)
+		for i, w := range words {
+			if w != "" {
+				checks[i].Name += " (" + w + ")"
+			}
+		}
+		a.Checks = checks
+		return
+	}
 	if c.Show.Kind != ShowEnvelope || len(c.Summaries) != len(c.Combinations) {
 		return
 	}

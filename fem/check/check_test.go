@@ -480,3 +480,30 @@ func TestBucklingSaysWhenTheCompressionVaries(t *testing.T) {
 		}
 	}
 }
+
+// A utilisation is the checked value over its limit and fails above 1
+// (Status Fail when utilisation > 1): its text must stay on the side of 1
+// its status is on. A deflection 0.4 % over span/360 printed "1.00" beside
+// "fail" in `stave check` and "Utilisation 1.00" in the overstress
+// message; it reads 1.004.
+func TestUtilisationTextKeepsTheSideOfOne(t *testing.T) {
+	for _, c := range []struct {
+		u    float64
+		want string
+	}{
+		{0.0784, "0.08"},
+		{0.99999, "1.00"}, // passes, at the limit to two decimals
+		{1, "1.00"},
+		{1.004, "1.004"},
+		{1.0000001, "1.0000001"},
+		{1 + 0x1p-52, "1.0000000000000002"},
+		{1.875, "1.88"},
+		{999999.994, "999999.99"},
+		{1e6, "1e+06"},
+		{1e300, "1e+300"},
+	} {
+		if got := UtilisationText(c.u); got != c.want {
+			t.Errorf("UtilisationText(%v) = %q, want %q", c.u, got, c.want)
+		}
+	}
+}

@@ -37,8 +37,8 @@ func stressChecks(p *Probe, o Options) []Result {
 		if utilisation > 1 {
 			r.Status = Fail
 		}
-		r.Message = fmt.Sprintf("Utilisation %.2f: the largest combined stress (axial plus bending, worst fibre) is %s at x = %s, from %s; the limit is the allowable %s divided by the safety factor %.3g = %s. %s",
-			utilisation, stress, at, p.fromWhat(), o.Units.Format(units.Stress, allowable), o.SafetyFactor, o.Units.Format(units.Stress, r.Limit),
+		r.Message = fmt.Sprintf("Utilisation %s: the largest combined stress (axial plus bending, worst fibre) is %s at x = %s, from %s; the limit is the allowable %s divided by the safety factor %.3g = %s. %s",
+			UtilisationText(utilisation), stress, at, p.fromWhat(), o.Units.Format(units.Stress, allowable), o.SafetyFactor, o.Units.Format(units.Stress, r.Limit),
 			p.feBeside(o, units.Stress, r.Value, fe))
 		if r.Status == Fail {
 			r.Message += "Above 1 the member is overstressed: a larger section, a stronger material, or less load is needed. "

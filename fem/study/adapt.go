@@ -27,6 +27,12 @@ type Adaptive struct {
 	// Reached says the estimate and the true error both met the target
 	// within maxElements.
 	Reached bool
+	// AtRoundOff says the refinement stopped short of the target because
+	// the last mesh's true error is at its round-off (its condition
+	// estimate times ε, Row.RoundOff): finer meshes raise that floor, and
+	// on a beam that only a foundation holds across they ended in a
+	// stiffness matrix singular to working precision.
+	AtRoundOff bool
 }
 
 // refineFraction is the share of the largest element estimate above which
@@ -74,6 +80,10 @@ func Adapt(ctx context.Context, m *fem.Model, target float64, maxElements int) (
 		out.Nodes = s.Mesh.X
 		if estimated <= target && it.True <= target {
 			out.Reached = true
+			return out, nil
+		}
+		if it.True <= roundOffOf(s.Condition) {
+			out.AtRoundOff = true
 			return out, nil
 		}
 		refined := bisect(s.Mesh, indicators)
@@ -254,29 +264,34 @@ func AgainstUniform(ctx context.Context, m *fem.Model, target float64, maxElemen
 	if err != nil {
 		return v, err
 	}
-	uniformError := func(n int) (int, float64, error) {
+	reaches := func(e float64) bool { return e <= v.AdaptiveTrue*(1+sameError) }
+	// uniformError solves on n elements: the elements, the true error and
+	// the condition estimate.
+	uniformError := func(n int) (int, float64, float64, error) {
 		if err := ctx.Err(); err != nil {
-			return 0, 0, err
+			return 0, 0, 0, err
 		}
 		um := *m
 		um.Mesh = fem.MeshSettings{Elements: n, BarOrder: m.Mesh.BarOrder}
 		s, err := fem.Solve(&um)
 		if err != nil {
-			return 0, 0, err
+			return 0, 0, 0, err
 		}
-		return len(s.Mesh.Elements), fem.Compare(s, exact).RelativeEnergy, nil
+		return len(s.Mesh.Elements), fem.Compare(s, exact).RelativeEnergy, s.Condition, nil
 	}
-	reaches := func(e float64) bool { return e <= v.AdaptiveTrue*(1+sameError) }
 	// Double to bracket the answer, then bisect on the requested count.
 	low, high := 0, 1
 	for {
-		count, e, err := uniformError(high)
+		count, e, cond, err := uniformError(high)
 		if err != nil {
 			return v, err
 		}
 		if reaches(e) {
 			v.UniformElements, v.UniformTrue = count, e
 			break
+		}
+		if e <= roundOffOf(cond) {
+			return v, fmt.Errorf("uniform refinement reached its round-off, an error of %.3g on %d elements (condition estimate %.2g), before the adaptive error %.3g", e, count, cond, v.AdaptiveTrue)
 		}
 		if count > maxUniform {
 			return v, fmt.Errorf("uniform refinement did not reach the adaptive error %.3g within %d elements (%.3g at %d)", v.AdaptiveTrue, maxUniform, e, count)
@@ -285,7 +300,7 @@ func AgainstUniform(ctx context.Context, m *fem.Model, target float64, maxElemen
 	}
 	for high-low > 1 {
 		mid := (low + high) / 2
-		count, e, err := uniformError(mid)
+		count, e, _, err := uniformError(mid)
 		if err != nil {
 			return v, err
 		}

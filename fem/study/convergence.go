@@ -44,6 +44,13 @@ type Row struct {
 	Elements   int
 	// Errors against the exact solution, relative (see fem.ErrorNorms).
 	MaxStress, L2, Energy float64
+	// RoundOff is the relative error at or below which this mesh's errors
+	// are round-off: the larger of the study's RoundOff and the solution's
+	// condition estimate times ε, the relative error elimination may leave
+	// (fem.Solution.Condition). A beam that only a foundation holds across
+	// has a condition growing as h⁻⁴, and its round-off outgrows the
+	// discretisation error on fine meshes.
+	RoundOff float64
 	// Observed rates against the previous row, log(e₀/e₁)/log(n₁/n₀);
 	// NaN in the first row or where an error is at round-off.
 	StressRate, L2Rate, EnergyRate float64
@@ -79,8 +86,15 @@ type Rate struct {
 }
 
 // RoundOff is the relative error below which a value is taken as exact:
-// rates computed from such values measure noise.
+// rates computed from such values measure noise. A mesh whose stiffness
+// matrix is ill-conditioned has a higher floor (Row.RoundOff).
 const RoundOff = 1e-10
+
+// roundOffOf is the round-off floor of a solution with condition estimate
+// cond: relative errors up to cond·ε are possible (fem.Solution.Condition).
+func roundOffOf(cond float64) float64 {
+	return math.Max(RoundOff, cond*0x1p-52)
+}
 
 // rateAgreement is how far, in rate, a step may be from the last one and
 // still count as asymptotic: well under the gap of one between the rates
@@ -115,15 +129,20 @@ func Convergence(ctx context.Context, m *fem.Model, maxPerStretch int) (Table, e
 			return Table{}, fmt.Errorf("convergence study, %d elements per stretch: %w", k, err)
 		}
 		norms := fem.Compare(s, exact)
-		row := Row{PerStretch: k, Elements: len(s.Mesh.Elements),
+		row := Row{PerStretch: k, Elements: len(s.Mesh.Elements), RoundOff: roundOffOf(s.Condition),
 			MaxStress: norms.MaxStressRelative, L2: norms.RelativeL2, Energy: norms.RelativeEnergy}
 		row.StressRate, row.L2Rate, row.EnergyRate = math.NaN(), math.NaN(), math.NaN()
 		if n := len(t.Rows); n > 0 {
 			prev := t.Rows[n-1]
-			ratio := float64(row.Elements) / float64(prev.Elements)
-			row.StressRate = rate(prev.MaxStress, row.MaxStress, ratio)
-			row.L2Rate = rate(prev.L2, row.L2, ratio)
-			row.EnergyRate = rate(prev.Energy, row.Energy, ratio)
+			step := func(before, after float64) float64 {
+				if before <= prev.RoundOff || after <= row.RoundOff {
+					return math.NaN()
+				}
+				return math.Log(before/after) / math.Log(float64(row.Elements)/float64(prev.Elements))
+			}
+			row.StressRate = step(prev.MaxStress, row.MaxStress)
+			row.L2Rate = step(prev.L2, row.L2)
+			row.EnergyRate = step(prev.Energy, row.Energy)
 		}
 		t.Rows = append(t.Rows, row)
 	}
@@ -143,7 +162,7 @@ func rateOf(rows []Row, value func(Row) (float64, float64)) Rate {
 	r := Rate{Fitted: math.NaN(), Last: math.NaN()}
 	last := len(rows) - 1
 	for last >= 0 {
-		if e, _ := value(rows[last]); e > RoundOff {
+		if e, _ := value(rows[last]); e > rows[last].RoundOff {
 			break
 		}
 		last--
@@ -158,7 +177,7 @@ func rateOf(rows []Row, value func(Row) (float64, float64)) Rate {
 	r.From = last - 1
 	for r.From > 0 {
 		e, step := value(rows[r.From])
-		if e <= RoundOff || math.IsNaN(step) || math.Abs(step-r.Last) > rateAgreement {
+		if e <= rows[r.From].RoundOff || math.IsNaN(step) || math.Abs(step-r.Last) > rateAgreement {
 			break
 		}
 		r.From--
@@ -167,18 +186,11 @@ func rateOf(rows []Row, value func(Row) (float64, float64)) Rate {
 	return r
 }
 
-func rate(before, after, refinement float64) float64 {
-	if before <= RoundOff || after <= RoundOff {
-		return math.NaN()
-	}
-	return math.Log(before/after) / math.Log(refinement)
-}
-
 // fittedRate is the least-squares slope of −log(error) against log(elements).
 func fittedRate(rows []Row, value func(Row) float64) float64 {
 	var xs, ys []float64
 	for _, r := range rows {
-		if v := value(r); v > RoundOff {
+		if v := value(r); v > r.RoundOff {
 			xs, ys = append(xs, math.Log(float64(r.Elements))), append(ys, -math.Log(v))
 		}
 	}

@@ -127,6 +127,59 @@ func TestConvergenceRatesOfTheAsymptoticRows(t *testing.T) {
 // solution (Hughes, The Finite Element Method, ch. 1, nodal exactness in
 // one dimension, from memory): the study says so and measures no rate of
 // round-off, and neither does the comparison with uniform refinement.
+// groundBeam is the beam of testdata/ground_beam_foundation.json, which
+// only its foundation holds across.
+func groundBeam() fem.Model {
+	return fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 12,
+			Section:  fem.Section{Area: 0.48, SecondMoment: 0.0256, FibreDistance: 0.4},
+			Material: fem.Material{Name: "concrete", Elastic: 30e9, Density: 2400}}},
+		Supports:    []fem.Support{{X: 6, Kind: fem.AxialOnly}},
+		Foundations: []fem.Foundation{{Start: 0, End: 12, Modulus: 24e6}},
+		PointLoads:  []fem.PointLoad{{X: 1.5, Transverse: -600e3}, {X: 10.5, Transverse: -600e3}},
+		Gravity:     [2]float64{0, -fem.StandardGravity},
+	}
+}
+
+// A beam that only an elastic foundation holds across (the ground beam of
+// testdata/ground_beam_foundation.json: 12 m, EI = 7.68e8 N·m², k = 24
+// MN/m², two column loads and its own weight) has a smooth exact solution
+// (Hetényi, Beams on Elastic Foundation, ch. 2), so its Hermite elements
+// converge at the rates of a beam (Strang & Fix, ch. 1 and 3, from memory:
+// displacement 4, energy and stress 2). But its stiffness matrix has a
+// condition number growing as h⁻⁴ (the foundation alone holds the rigid
+// motions), 6e9 on 64 elements per stretch, and round-off of up to
+// condition·ε then swamps the displacement error, 6e-8 there where h⁴
+// gives 6e-10 (Golub & Van Loan, Matrix Computations, the sensitivity of
+// a linear system, from memory). The study read that noise as a rate of
+// -2.7 for the displacement, the one printed by `stave converge` on the
+// example model: a row's error below its own round-off must measure no
+// rate.
+func TestConvergenceRatesAboveTheRoundOffOfEachMesh(t *testing.T) {
+	m := groundBeam()
+	table, err := Convergence(context.Background(), &m, 64)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, r := range table.Rows {
+		t.Logf("%3d elements  stress %.3e (rate %.2f)  L2 %.3e (rate %.2f)  energy %.3e (rate %.2f)  round-off %.1e",
+			r.Elements, r.MaxStress, r.StressRate, r.L2, r.L2Rate, r.Energy, r.EnergyRate, r.RoundOff)
+		for _, step := range []float64{r.StressRate, r.L2Rate, r.EnergyRate} {
+			if step < 1 {
+				t.Errorf("%d elements: a step rate of %.2f, below any rate the elements have: round-off read as convergence", r.Elements, step)
+			}
+		}
+	}
+	for _, q := range []struct {
+		what   string
+		got    Rate
+		theory float64
+	}{{"stress", table.Stress, 2}, {"displacement", table.L2, 4}, {"energy", table.Energy, 2}} {
+		if math.IsNaN(q.got.Fitted) || math.Abs(q.got.Fitted-q.theory) > 0.15 || math.Abs(q.got.Last-q.theory) > 0.25 {
+			t.Errorf("%s: fitted rate %.3f, last step %.3f; theory %g", q.what, q.got.Fitted, q.got.Last, q.theory)
+		}
+	}
+}
 func TestConvergenceExactForTheModel(t *testing.T) {
 	m := member(4, []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 3, Kind: fem.Roller}})
 	m.PointLoads = []fem.PointLoad{{X: 1.5, Transverse: -20e3, Axial: 5e3}, {X: 4, Moment: 3e3}}
@@ -323,5 +376,34 @@ func TestAdaptReachedMeansTheTrueError(t *testing.T) {
 			t.Errorf("target %g: stopped at %d elements with estimate %.3g and true error %.3g: both must meet the target",
 				target, last.Elements, last.Estimated, last.True)
 		}
+	}
+}
+
+// A target below what round-off lets the ground beam reach (its condition
+// grows as h⁻⁴, so relative errors of condition·ε outgrow the h² energy
+// error of the elements near 1,000 elements: Golub & Van Loan, the
+// sensitivity of a linear system, from memory) stops the refinement where
+// the true error meets the mesh's round-off, not reached and said so. It
+// refined on until the beam's equations were singular at 8,957 nodes, and
+// `stave converge --target 1e-6` printed nothing of its study but that
+// error. Uniform refinement either reaches the error the adaptive run
+// stopped at or says it met its own round-off first.
+func TestAdaptStopsAtRoundOff(t *testing.T) {
+	m := groundBeam()
+	v, err := AgainstUniform(context.Background(), &m, 1e-7, 100000, 100000)
+	a := v.Adaptive
+	if len(a.Iterations) == 0 {
+		t.Fatalf("no adaptive mesh: %v", err)
+	}
+	last := a.Iterations[len(a.Iterations)-1]
+	if a.Reached || !a.AtRoundOff {
+		t.Errorf("target 1e-7: reached %v, at round-off %v, after %d meshes ending at %d elements with a true error %.3g",
+			a.Reached, a.AtRoundOff, len(a.Iterations), last.Elements, last.True)
+	}
+	if last.True > 1e-4 {
+		t.Errorf("stopped at a true error of %.3g on %d elements, where round-off is still far below the error", last.True, last.Elements)
+	}
+	if err != nil && !strings.Contains(err.Error(), "round-off") {
+		t.Errorf("uniform refinement: %v, want it to reach the adaptive error or stop at its round-off", err)
 	}
 }

@@ -13,6 +13,7 @@ import (
 
 	"stave/canvas/report"
 	"stave/fem"
+	"stave/fem/check"
 )
 
 // Writer writes a batch's lines as Run hands them over, then its summary.
@@ -42,12 +43,24 @@ func ratioText(n float64) string {
 	return strconv.FormatFloat(n, 'g', 3, 64)
 }
 
-// deflectionText is a deflection check as "L/250 (limit L/360)".
+// deflectionText is a deflection check as "L/250 (limit L/360)". A
+// deflection past its limit (a ratio below the limit's) that rounds to the
+// limit gets as many decimals as show it below, as check.UtilisationText
+// keeps a failed utilisation above 1.00: "L/359.6 (limit L/360)", never
+// "L/360 (limit L/360)" beside fail.
 func deflectionText(d *Deflection) string {
 	if math.IsInf(float64(d.Ratio), 0) {
 		return fmt.Sprintf("none (limit L/%s)", ratioText(d.LimitRatio))
 	}
-	return fmt.Sprintf("L/%s (limit L/%s)", ratioText(float64(d.Ratio)), ratioText(d.LimitRatio))
+	ratio, limit := float64(d.Ratio), ratioText(d.LimitRatio)
+	text := ratioText(ratio)
+	for decimals := 1; ratio < d.LimitRatio && decimals <= 17; decimals++ {
+		if shown, _ := strconv.ParseFloat(text, 64); shown < d.LimitRatio {
+			break
+		}
+		text = strconv.FormatFloat(ratio, 'f', decimals, 64)
+	}
+	return fmt.Sprintf("L/%s (limit L/%s)", text, limit)
 }
 
 // warningText is the warnings in one cell: why a refused member has no
@@ -76,23 +89,13 @@ type textWriter struct {
 func (t *textWriter) Member(m Member) error {
 	mark, governing, utilisation, deflection := dash(m.Mark), "-", "-", "-"
 	if g := m.Governing; g != nil {
-		governing, utilisation = g.Name, utilisationText(g.Utilisation)
+		governing, utilisation = g.Name, check.UtilisationText(g.Utilisation)
 	}
 	if d := m.Deflection; d != nil {
 		deflection = deflectionText(d)
 	}
 	t.rows = append(t.rows, strings.Join([]string{m.File, mark, m.Status.String(), governing, utilisation, deflection, dash(warningText(m))}, "\t"))
 	return nil
-}
-
-// utilisationText is u to two decimals, or to three figures from a million
-// up, where the decimals would run to hundreds of digits (a safety factor
-// of 1e300, say) and widen the whole column.
-func utilisationText(u float64) string {
-	if math.Abs(u) >= 1e6 {
-		return fmt.Sprintf("%.3g", u)
-	}
-	return fmt.Sprintf("%.2f", u)
 }
 
 // dash stands for an empty cell.
@@ -122,7 +125,7 @@ func (t *textWriter) Close(s Summary) error {
 	tw.Flush()
 	fmt.Fprintf(bw, "\n%s: %d ok, %d caution, %d failed a check, %d refused\n", members(s.Members), s.OK, s.Caution, s.Failed, s.Refused)
 	if h := s.Highest; h != nil {
-		fmt.Fprintf(bw, "Highest utilisation: %s, %s, in %s\n", utilisationText(h.Utilisation), h.Name, h.Who)
+		fmt.Fprintf(bw, "Highest utilisation: %s, %s, in %s\n", check.UtilisationText(h.Utilisation), h.Name, h.Who)
 	}
 	if d := s.Deflection; d != nil {
 		fmt.Fprintf(bw, "Largest deflection for its limit: %s, %s, in %s\n", deflectionText(&d.Deflection), d.Name, d.Who)

@@ -165,30 +165,15 @@ func TestDeflectionText(t *testing.T) {
 		{4015.5, 360, "L/4016 (limit L/360)"},
 		{33.333, 180, "L/33.3 (limit L/180)"},
 		{math.Inf(1), 180, "none (limit L/180)"},
+		// A deflection 0.1 % over span/360 fails (utilisation 1.001):
+		// it read "L/360 (limit L/360)" beside fail.
+		{360 / 1.001, 360, "L/359.6 (limit L/360)"},
+		{360 / 1.0000001, 360, "L/359.99996 (limit L/360)"},
+		{360.4, 360, "L/360 (limit L/360)"}, // passes, at the limit
 	} {
 		d := Deflection{Ratio: Ratio(c.ratio), LimitRatio: c.limit}
 		if got := deflectionText(&d); got != c.want {
 			t.Errorf("ratio %g, limit %g: %q, want %q", c.ratio, c.limit, got, c.want)
-		}
-	}
-}
-
-// A utilisation past a million is written to three figures, not as the
-// hundreds of digits "%.2f" gives 1e300 (a safety factor of 1e300 in a
-// file), which widened the whole column; ordinary ones keep two decimals.
-func TestUtilisationText(t *testing.T) {
-	for _, c := range []struct {
-		u    float64
-		want string
-	}{
-		{0.0784, "0.08"},
-		{1, "1.00"},
-		{999999.994, "999999.99"},
-		{1e6, "1e+06"},
-		{1e300, "1e+300"},
-	} {
-		if got := utilisationText(c.u); got != c.want {
-			t.Errorf("utilisationText(%g) = %q, want %q", c.u, got, c.want)
 		}
 	}
 }
