@@ -57,7 +57,9 @@ func TestConvergenceTheoryOfShearDeformation(t *testing.T) {
 
 // The energy error is the square root of the strain energy of the
 // difference over the square root of the strain energy (fem.ErrorNorms,
-// docs/json.md), and the solve text must say so: it named the strain
+// docs/json.md): the ratio of the energy norms (the energy norm is the
+// square root of twice the strain energy; Strang & Fix, ch. 1, from
+// memory), and the solve text must say so: it named the strain
 // energies themselves. One Hermite element on a simply supported beam under
 // a uniform load q: the nodal rotations are exact, so the element's moment
 // is the constant qL²/12 against the exact qx(L − x)/2 (Gere & Goodno,
@@ -90,7 +92,7 @@ func TestEnergyErrorIsNamedAsTheSquareRoot(t *testing.T) {
 		}
 	}
 	want := fmt.Sprintf("%.3g %%", 100*math.Sqrt(1.0/6))
-	if !strings.HasSuffix(line, want) || !strings.Contains(line, "(square root of the strain energy of the difference), as a share of the square root of the strain energy") {
-		t.Errorf("the energy error line %q: want %s named as the square root of the strain energy of the difference over that of the strain energy", line, want)
+	if !strings.HasSuffix(line, want) || !strings.Contains(line, "(energy norm of the difference), as a share of the energy norm") {
+		t.Errorf("the energy error line %q: want %s named as the energy norm of the difference over the energy norm (the square roots of the strain energies)", line, want)
 	}
 }

@@ -640,7 +640,7 @@ func WriteErrorText(w io.Writer, e fem.ErrorNorms, u units.System) {
 	fmt.Fprintln(tw, "\nHow far the finite element answer is from the exact solution of the same model")
 	fmt.Fprintf(tw, "  %s, as a share of the largest stress\t%s (near x = %s)\n", fem.StressErrorName, percent(e.MaxStressRelative), u.Format(units.Position, e.MaxStressAt))
 	fmt.Fprintf(tw, "  %s, as a share of the displacements\t%s\n", fem.DisplacementErrorName, percent(e.RelativeL2))
-	fmt.Fprintf(tw, "  %s (square root of the strain energy of the difference), as a share of the square root of the strain energy\t%s\n", fem.EnergyErrorName, percent(e.RelativeEnergy))
+	fmt.Fprintf(tw, "  %s (energy norm of the difference), as a share of the energy norm\t%s\n", fem.EnergyErrorName, percent(e.RelativeEnergy))
 	fmt.Fprintf(tw, "  largest errors\tstress %s, deflection %s, axial displacement %s\n", u.Format(units.Stress, e.MaxStress),
 		u.Format(units.Deflection, e.MaxDeflection), u.Format(units.Deflection, e.MaxAxial))
 	tw.Flush()
