@@ -70,12 +70,18 @@ func sizeLimit(coefficient float64, power float64, allowed float64) float64 {
 // Over a foundation every node of the mesh enters the factorized
 // equations, whose condition grows as the fourth power of the elements
 // there: about 4/(β·h)⁴ across the member, β = (k/4EI)^¼, and 4/(α·h)²
-// along it, α = (kₐ/EA)^½. The automatic mesh keeps β·h and α·h at least
-// these, so that round-off (condition·ε) stays near 1e-5 at worst; the
-// finite element shear force, constant in each element while the bed's
-// k·w changes it, is then within about β·h = 0.4 % of its peak.
+// along it, α = (kₐ/EA)^½. Iterative refinement (groundrefine.go) brings
+// the solution back to round-off while the factorization's relative error,
+// condition·ε, stays well below 1: the automatic mesh keeps β·h and α·h at
+// least these (condition about 5e14 across, 4e10 along). That leaves room
+// for the shear force on a soft or short bed, constant in each element
+// while the bed's k·w changes it: a member riding the bed almost rigidly
+// feels k·w ≈ 4P/L under a load P at a free end, and needs some 800
+// elements whatever β is, which the limit allows down to β·L = 0.4. On a
+// softer bed the shear force may miss by about 0.1 %/(β·L), and
+// the mesh's note says so.
 const (
-	foundationBetaStep  = 0.004
+	foundationBetaStep  = 5e-4
 	foundationAlphaStep = 1e-5
 )
 
@@ -92,6 +98,46 @@ func (d *elementData) shortestOnFoundation() float64 {
 	return h
 }
 
+// netLoaded is stretch d on a foundation seen as a stretch off it under
+// the load the foundation leaves, q − k·w across and p − kₐ·u along (the
+// beam's EI·w⁗ = q − k·w, the bar's −EA·u″ = p − kₐ·u): the
+// interpolation bounds of elementLength then hold as they stand, with the
+// largest net load found by sampling the exact solution e at sixteen
+// points per unit of the stretch's λ, and at eight at least. It is sharper
+// than |q| + k·|w|max, as the two largest terms seldom meet at one place
+// and cancel where the bed takes a load up. Off a foundation d is returned
+// as it is.
+func netLoaded(d elementData, e *Exact) elementData {
+	if d.modulus == 0 && d.axialModulus == 0 {
+		return d
+	}
+	k, ka := d.modulus, d.axialModulus
+	waves := 0.0
+	if k > 0 && d.flexuralRigidity > 0 {
+		waves = d.length * math.Sqrt(math.Sqrt(k/(4*d.flexuralRigidity)))
+	}
+	if ka > 0 && d.axialRigidity > 0 {
+		waves = max(waves, d.length*math.Sqrt(ka/d.axialRigidity))
+	}
+	n := 8 + int(math.Ceil(16*min(waves, 1e4)))
+	q, p := 0.0, 0.0
+	for i := 0; i <= n; i++ {
+		t := float64(i) / float64(n)
+		side := Right
+		if i == n {
+			side = Left
+		}
+		f := e.At(d.start+t*d.length, side)
+		q = max(q, math.Abs(d.transverseLoad[0]+t*(d.transverseLoad[1]-d.transverseLoad[0])-k*f.Deflection))
+		p = max(p, math.Abs(d.axialLoad[0]+t*(d.axialLoad[1]-d.axialLoad[0])-ka*f.AxialDisplacement))
+	}
+	d.modulus, d.transverseLoad = 0, [2]float64{q, q}
+	if ka > 0 { // a linear bar (Validate): its bound reads only the largest load
+		d.axialModulus, d.axialLoad = 0, [2]float64{p, p}
+	}
+	return d
+}
+
 // automaticCounts are the default mesh's element counts per stretch of
 // p.keys, and a note on how they were found. With load cases, every case
 // must meet the rule on the mesh.
@@ -106,6 +152,7 @@ func (p *Member) automaticCounts() ([]int, string) {
 		return n, "automatic: no exact solution to size it from, so about 100 elements spread by length"
 	}
 	bar, beam := p.model.Formulations()
+	floored := false // the rule asked for shorter elements than a foundation allows
 	for k, e := range exacts {
 		scale := exactScales(e)
 		l := &p.loadSets[k]
@@ -115,10 +162,14 @@ func (p *Member) automaticCounts() ([]int, string) {
 			d := elementData{start: a, length: b - a, sectionData: sections[p.model.SegmentAt(0.5*(a+b))],
 				axialLoad: l.Axial[j], transverseLoad: l.Transverse[j]}
 			d.modulus, d.axialModulus = p.model.foundationAt(0.5 * (a + b))
+			floor := d.shortestOnFoundation()
+			d = netLoaded(d, e)
 			// Half the accuracy: the bounds are estimates.
 			tol := MeshAccuracy / 2
 			h := min(bar.elementLength(&d, &scale, tol), beam.elementLength(&d, &scale, tol))
-			h = max(h, d.shortestOnFoundation())
+			if h < floor && floor < d.length {
+				h, floored = floor, true
+			}
 			n[j] = max(n[j], 1)
 			if h < d.length {
 				n[j] = max(n[j], int(min(math.Ceil(d.length/h), maxAutomaticElements)))
@@ -128,6 +179,9 @@ func (p *Member) automaticCounts() ([]int, string) {
 	total := 0
 	for _, c := range n {
 		total += c
+	}
+	if total <= maxAutomaticElements && floored {
+		return n, "automatic, for fields within 0.5 % of the exact extremes but over a foundation, whose equations limit how short its elements may be: the shear force there may miss by more"
 	}
 	if total <= maxAutomaticElements {
 		return n, "automatic, for fields within 0.5 % of the exact extremes"
