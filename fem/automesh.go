@@ -85,18 +85,47 @@ const (
 	foundationAlphaStep = 1e-5
 )
 
+// groundRates are β = (k/4EI)^¼ and α = (kₐ/EA)^½ of d's stretch of
+// foundation, 1/m: how fast its fields wave and decay (0 off a foundation).
+func (d *elementData) groundRates() (beta, alpha float64) {
+	if d.modulus > 0 && d.flexuralRigidity > 0 {
+		beta = math.Sqrt(math.Sqrt(d.modulus / (4 * d.flexuralRigidity)))
+	}
+	if d.axialModulus > 0 && d.axialRigidity > 0 {
+		alpha = math.Sqrt(d.axialModulus / d.axialRigidity)
+	}
+	return beta, alpha
+}
+
 // shortestOnFoundation is the shortest element the automatic mesh puts on
 // d's stretch of foundation (0 off a foundation).
 func (d *elementData) shortestOnFoundation() float64 {
+	beta, alpha := d.groundRates()
 	h := 0.0
-	if d.modulus > 0 && d.flexuralRigidity > 0 {
-		h = foundationBetaStep / math.Sqrt(math.Sqrt(d.modulus/(4*d.flexuralRigidity)))
+	if beta > 0 {
+		h = foundationBetaStep / beta
 	}
-	if d.axialModulus > 0 && d.axialRigidity > 0 {
-		h = max(h, foundationAlphaStep/math.Sqrt(d.axialModulus/d.axialRigidity))
+	if alpha > 0 {
+		h = max(h, foundationAlphaStep/alpha)
 	}
 	return h
 }
+
+// groundPieces is how many equal pieces the automatic mesh sizes d's
+// stretch in: one off a foundation, one per 1/β (or 1/α) on it, where the
+// fields and the load the bed leaves decay by e^(−1) (Hetényi, Beams on
+// Elastic Foundation, 1946: the decay of the infinite beam's solution,
+// from memory). Each piece gets the elements its own net load asks for,
+// so a long stretch is fine only where the bed takes up a load, not all
+// along.
+func (d *elementData) groundPieces() int {
+	beta, alpha := d.groundRates()
+	return max(1, int(math.Ceil(min(d.length*max(beta, alpha), maxGroundPieces))))
+}
+
+// maxGroundPieces bounds groundPieces for a stretch of extreme β·L, whose
+// fields decay to nothing within a sliver of it anyway.
+const maxGroundPieces = 4096
 
 // netLoaded is stretch d on a foundation seen as a stretch off it under
 // the load the foundation leaves, q − k·w across and p − kₐ·u along (the
@@ -112,14 +141,8 @@ func netLoaded(d elementData, e *Exact) elementData {
 		return d
 	}
 	k, ka := d.modulus, d.axialModulus
-	waves := 0.0
-	if k > 0 && d.flexuralRigidity > 0 {
-		waves = d.length * math.Sqrt(math.Sqrt(k/(4*d.flexuralRigidity)))
-	}
-	if ka > 0 && d.axialRigidity > 0 {
-		waves = max(waves, d.length*math.Sqrt(ka/d.axialRigidity))
-	}
-	n := 8 + int(math.Ceil(16*min(waves, 1e4)))
+	beta, alpha := d.groundRates()
+	n := 8 + int(math.Ceil(16*min(d.length*max(beta, alpha), 1e4)))
 	q, p := 0.0, 0.0
 	for i := 0; i <= n; i++ {
 		t := float64(i) / float64(n)
@@ -139,15 +162,16 @@ func netLoaded(d elementData, e *Exact) elementData {
 }
 
 // automaticCounts are the default mesh's element counts per stretch of
-// p.keys, and a note on how they were found. With load cases, every case
-// must meet the rule on the mesh.
-func (p *Member) automaticCounts() ([]int, string) {
-	n := make([]int, len(p.keys)-1)
+// p.keys, stretch j divided into len(n[j]) equal pieces (groundPieces) of
+// n[j][i] elements each, and a note on how they were found. With load
+// cases, every case must meet the rule on the mesh.
+func (p *Member) automaticCounts() ([][]int, string) {
+	n := make([][]int, len(p.keys)-1)
 	exacts, err := p.ExactLoadSets()
 	if err != nil {
 		L := p.model.Length()
 		for j := range n {
-			n[j] = max(1, int(math.Round(fallbackElements*(p.keys[j+1]-p.keys[j])/L)))
+			n[j] = []int{max(1, int(math.Round(fallbackElements*(p.keys[j+1]-p.keys[j])/L)))}
 		}
 		return n, "automatic: no exact solution to size it from, so about 100 elements spread by length"
 	}
@@ -163,22 +187,30 @@ func (p *Member) automaticCounts() ([]int, string) {
 				axialLoad: l.Axial[j], transverseLoad: l.Transverse[j]}
 			d.modulus, d.axialModulus = p.model.foundationAt(0.5 * (a + b))
 			floor := d.shortestOnFoundation()
-			d = netLoaded(d, e)
-			// Half the accuracy: the bounds are estimates.
-			tol := MeshAccuracy / 2
-			h := min(bar.elementLength(&d, &scale, tol), beam.elementLength(&d, &scale, tol))
-			if h < floor && floor < d.length {
-				h, floored = floor, true
+			if n[j] == nil {
+				n[j] = make([]int, d.groundPieces())
 			}
-			n[j] = max(n[j], 1)
-			if h < d.length {
-				n[j] = max(n[j], int(min(math.Ceil(d.length/h), maxAutomaticElements)))
+			for i := range n[j] {
+				piece := d.piece(i, len(n[j]))
+				piece = netLoaded(piece, e)
+				// Half the accuracy: the bounds are estimates.
+				tol := MeshAccuracy / 2
+				h := min(bar.elementLength(&piece, &scale, tol), beam.elementLength(&piece, &scale, tol))
+				if h < floor && floor < piece.length {
+					h, floored = floor, true
+				}
+				n[j][i] = max(n[j][i], 1)
+				if h < piece.length {
+					n[j][i] = max(n[j][i], int(min(math.Ceil(piece.length/h), maxAutomaticElements)))
+				}
 			}
 		}
 	}
 	total := 0
 	for _, c := range n {
-		total += c
+		for _, ci := range c {
+			total += ci
+		}
 	}
 	if total <= maxAutomaticElements && floored {
 		return n, "automatic, for fields within 0.5 % of the exact extremes but over a foundation, whose equations limit how short its elements may be: the shear force there may miss by more"
@@ -186,8 +218,26 @@ func (p *Member) automaticCounts() ([]int, string) {
 	if total <= maxAutomaticElements {
 		return n, "automatic, for fields within 0.5 % of the exact extremes"
 	}
-	for j := range n {
-		n[j] = max(1, n[j]*maxAutomaticElements/total)
+	for _, c := range n {
+		for i := range c {
+			c[i] = max(1, c[i]*maxAutomaticElements/total)
+		}
 	}
 	return n, "automatic, limited to 200,000 elements: the 0.5 % rule would need more"
+}
+
+// piece is the i-th of pieces equal pieces of stretch d, with the linear
+// loads along it.
+func (d *elementData) piece(i, pieces int) elementData {
+	if pieces == 1 {
+		return *d
+	}
+	out := *d
+	h := d.length / float64(pieces)
+	out.start, out.length = d.start+float64(i)*h, h
+	at := func(l [2]float64, t float64) float64 { return l[0] + t*(l[1]-l[0]) }
+	t0, t1 := float64(i)/float64(pieces), float64(i+1)/float64(pieces)
+	out.axialLoad = [2]float64{at(d.axialLoad, t0), at(d.axialLoad, t1)}
+	out.transverseLoad = [2]float64{at(d.transverseLoad, t0), at(d.transverseLoad, t1)}
+	return out
 }
