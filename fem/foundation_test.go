@@ -99,9 +99,15 @@ func TestLongBeamOnFoundationPointLoad(t *testing.T) {
 //     and loaded at a from there takes R = −P·e^(−βa)·(cos βa + sin βa) at
 //     the support (the load's deflection there cancelled by R's); the same
 //     support settling by Δ with no load takes R = 2kΔ/β, and the moment
-//     over it is −R/(4β).
+//     over it is −R/(4β);
+//   - a hinge under a load on a long beam: each side is a semi-infinite
+//     beam loaded at its end by P/2, so w = 2(P/2)β/k = Pβ/k, twice the
+//     continuous beam's;
+//   - a spring kₛ across the loaded end of a semi-infinite beam: the end
+//     takes P on the spring and the beam, whose end stiffness is k/(2β)
+//     (the first item), so w(0) = P/(kₛ + k/(2β)).
 func TestHetenyiClosedForms(t *testing.T) {
-	const k, P, C, c, a, settle = 6.4e6, -8e4, 3e4, 2.0, 2.0, -5e-3
+	const k, P, C, c, a, settle, spring = 6.4e6, -8e4, 3e4, 2.0, 2.0, -5e-3, 4e6
 	ei := testE * testI
 	beta := math.Sqrt(math.Sqrt(k / (4 * ei)))
 	type want struct {
@@ -175,6 +181,23 @@ func TestHetenyiClosedForms(t *testing.T) {
 		}, func(e *Exact) []want {
 			r := 2 * k * settle / beta // down, pulling the beam with it
 			return []want{{"support's reaction", e.Reactions()[0].Force[Transverse], r}, {"M over it", e.At(long/2, Right).BendingMoment, -r / (4 * beta)}}
+		}},
+		{"hinge under a load", func() *Model {
+			m := groundModel(long, k)
+			m.Hinges = []Hinge{{X: long / 2}}
+			m.PointLoads = []PointLoad{{X: long / 2, Transverse: P}}
+			return m
+		}, func(e *Exact) []want {
+			return []want{{"w under the load", e.At(long/2, Right).Deflection, P * beta / k}}
+		}},
+		{"spring at the loaded end", func() *Model {
+			m := groundModel(long, k)
+			m.Supports = append(m.Supports, Support{X: 0, Kind: Spring, Stiffness: [3]float64{Transverse: spring}})
+			m.PointLoads = []PointLoad{{X: 0, Transverse: P}}
+			return m
+		}, func(e *Exact) []want {
+			w := P / (spring + k/(2*beta))
+			return []want{{"w(0)", e.At(0, Right).Deflection, w}, {"spring's reaction", e.Reactions()[1].Force[Transverse], -spring * w}}
 		}},
 	}...)
 	for _, r := range rows {
@@ -793,5 +816,52 @@ func TestDefaultMeshFollowsTheDecay(t *testing.T) {
 	}
 	if counts[1] > counts[0]*6/5 {
 		t.Errorf("the default mesh has %d elements at β·L = 30 and %d at 60: the length the fields have decayed over is meshed as finely as the load's neighbourhood", counts[0], counts[1])
+	}
+}
+
+// A long beam on two foundations, k₁ left of x = a and k₂ right of it,
+// loaded by P at the step: each side is a semi-infinite beam loaded at its
+// end by its share of P and a moment C, whose end deflections and
+// rotations are Hetényi's (TestHetenyiClosedForms: w = 2Pβ/k − 2Cβ²/k, θ =
+// −2Pβ²/k + 4Cβ³/k), the left one mirrored; w and θ continuous at the step
+// give the right share P₂ and C from two equations. With k₁ = k₂ it is the
+// infinite beam's w = Pβ/(2k). Exact w at the step and what each
+// foundation carries must be these; the default mesh's within MeshAccuracy.
+func TestSteppedFoundation(t *testing.T) {
+	const P = -8e4
+	ei := testE * testI
+	for _, ks := range [][2]float64{{6.4e6, 6.4e6}, {6.4e6, 1.6e6}, {1e6, 4e7}} {
+		k1, k2 := ks[0], ks[1]
+		b1, b2 := math.Sqrt(math.Sqrt(k1/(4*ei))), math.Sqrt(math.Sqrt(k2/(4*ei)))
+		// Rows: w right − w left = 0, θ right − θ left = 0, in P₂ and C.
+		a11, a12, r1 := 2*b2/k2+2*b1/k1, -2*b2*b2/k2+2*b1*b1/k1, 2*P*b1/k1
+		a21, a22, r2 := -2*b2*b2/k2+2*b1*b1/k1, 4*b2*b2*b2/k2+4*b1*b1*b1/k1, 2*P*b1*b1/k1
+		det := a11*a22 - a12*a21
+		p2, c := (r1*a22-a12*r2)/det, (a11*r2-a21*r1)/det
+		w := 2*p2*b2/k2 - 2*c*b2*b2/k2
+		t.Run(fmt.Sprintf("k₁ = %g, k₂ = %g", k1, k2), func(t *testing.T) {
+			a := 30 / b1
+			L := a + 30/b2
+			m := groundModel(L, k1)
+			m.Foundations = []Foundation{{Start: 0, End: a, Modulus: k1}, {Start: a, End: L, Modulus: k2}}
+			m.PointLoads = []PointLoad{{X: a, Transverse: P}}
+			e, err := SolveExact(m)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if got := e.At(a, Right).Deflection; relErr(got, w) > 1e-9 {
+				t.Errorf("exact w at the step %.10g, want %.10g", got, w)
+			}
+			if g := e.Foundations(); relErr(g[1].Force[Transverse], -p2) > 1e-9 || relErr(g[0].Force[Transverse], -(P-p2)) > 1e-9 {
+				t.Errorf("the foundations carry %.10g and %.10g N, want %.10g and %.10g", g[0].Force[Transverse], g[1].Force[Transverse], -(P - p2), -p2)
+			}
+			s := mustSolve(t, m)
+			for _, x := range Summarize(s, e).Extremes {
+				scale := math.Max(math.Abs(x.Max), math.Abs(x.Min))
+				if diff := math.Max(math.Abs(x.FEMax-x.Max), math.Abs(x.FEMin-x.Min)); diff > MeshAccuracy*scale {
+					t.Errorf("%s: FE off by %.2g of %.3g, beyond %g", x.Quantity, diff/scale, scale, MeshAccuracy)
+				}
+			}
+		})
 	}
 }
