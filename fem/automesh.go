@@ -73,16 +73,17 @@ func sizeLimit(coefficient float64, power float64, allowed float64) float64 {
 // along it, α = (kₐ/EA)^½. Iterative refinement (groundrefine.go) brings
 // the solution back to round-off while the factorization's relative error,
 // condition·ε, stays well below 1: the automatic mesh keeps β·h and α·h at
-// least these (condition about 5e14 across, 4e10 along). That leaves room
-// for the shear force on a soft or short bed, constant in each element
-// while the bed's k·w changes it: a member riding the bed almost rigidly
-// feels k·w ≈ 4P/L under a load P at a free end, and needs some 800
-// elements whatever β is, which the limit allows down to β·L = 0.4. On a
-// softer bed the shear force may miss by about 0.1 %/(β·L), and
-// the mesh's note says so.
+// least these, a condition of about 5e14 for either problem (the two share
+// the mesh, so the longer of the two floors holds). That leaves room for
+// the shear force on a soft or short bed, constant in each element while
+// the bed's k·w changes it: a member riding the bed almost rigidly feels
+// k·w ≈ 4P/L under a load P at a free end, and needs some 800 elements
+// whatever β is, which the floor allows down to β·L = 0.4. On a softer bed
+// the shear force may miss by about 0.1 %/(β·L), and the mesh's note says
+// so.
 const (
 	foundationBetaStep  = 5e-4
-	foundationAlphaStep = 1e-5
+	foundationAlphaStep = 1e-7
 )
 
 // groundRates are β = (k/4EI)^¼ and α = (kₐ/EA)^½ of d's stretch of
