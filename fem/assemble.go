@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 
 	"stave/fem/band"
 )
@@ -23,6 +24,16 @@ type assembly struct {
 	// right-hand side of any load vector.
 	coupling []coupling
 	cond     float64 // condition estimate of the scaled matrix
+	// grounded says a foundation stiffens some element: solve then refines
+	// (groundrefine.go), and needs the springs for it.
+	grounded bool
+	springs  []spring
+}
+
+// spring is an elastic restraint on one unknown.
+type spring struct {
+	dof       int
+	stiffness float64
 }
 
 // fixedDof is an unknown a rigid restraint holds.
@@ -68,6 +79,9 @@ func assemble(m *Model, nodes []float64, els []elementData, form Formulation) (*
 		scale[i] = 1 / math.Sqrt(a.Data[i*(as.kb+1)])
 	}
 	as.cond = as.ldl.Cond(a, scale)
+	if as.grounded && as.cond*0x1p-52 <= refinableError {
+		as.cond = refinedCondition(as.cond)
+	}
 	return as, nil
 }
 
@@ -86,6 +100,9 @@ func build(m *Model, nodes []float64, els []elementData, form Formulation) (*ban
 		}
 	}
 	as := &assembly{form: form, nodes: nodes, n: n, kb: kb}
+	for e := range els {
+		as.grounded = as.grounded || els[e].modulus > 0 || els[e].axialModulus > 0
+	}
 	for s, sup := range m.Supports {
 		node := nearest(nodes, sup.X)
 		for mi, d := range form.Motions() {
@@ -93,6 +110,7 @@ func build(m *Model, nodes []float64, els []elementData, form Formulation) (*ban
 			switch {
 			case sup.Elastic(d):
 				a.Add(dof, dof, sup.Stiffness[d])
+				as.springs = append(as.springs, spring{dof, sup.Stiffness[d]})
 			case sup.Kind.Restrains(d):
 				as.fixed = append(as.fixed, fixedDof{dof: dof, support: s, motion: d})
 			}
@@ -133,12 +151,26 @@ func build(m *Model, nodes []float64, els []elementData, form Formulation) (*ban
 
 // solve writes to u (length as.n) the unknowns under the element loads of
 // els, the point loads at the nodes nodal and the supports' settlements.
+// Over a foundation it refines the solution (groundrefine.go).
 func (as *assembly) solve(els []elementData, nodal [][3]float64, settlement [][3]float64, u []float64) error {
-	return as.ldl.SolveTo(u, as.rhs(els, nodal, settlement))
+	loads := as.loads(els, nodal)
+	if err := as.ldl.SolveTo(u, as.restrained(slices.Clone(loads), settlement)); err != nil || !as.grounded {
+		return err
+	}
+	for _, f := range as.fixed {
+		u[f.dof] = settlementOf(settlement, f.support, f.motion)
+	}
+	return as.refine(els, loads, u)
 }
 
 // rhs is the load vector of els, nodal and settlement with the supports applied.
 func (as *assembly) rhs(els []elementData, nodal [][3]float64, settlement [][3]float64) []float64 {
+	return as.restrained(as.loads(els, nodal), settlement)
+}
+
+// loads is the load vector of the element loads of els and the point loads
+// at the nodes nodal.
+func (as *assembly) loads(els []elementData, nodal [][3]float64) []float64 {
 	rhs := make([]float64, as.n)
 	for e := range els {
 		first, count := as.form.element(e)
@@ -153,6 +185,14 @@ func (as *assembly) rhs(els []elementData, nodal [][3]float64, settlement [][3]f
 			rhs[as.form.nodeDof(node, mi)] += load[d]
 		}
 	}
+	return rhs
+}
+
+// restrained applies the supports' prescribed motions settlement to the
+// load vector rhs, in place, and returns it: the columns of the restrained
+// unknowns times their motions move to the right-hand side, and their own
+// rows ask for the motions.
+func (as *assembly) restrained(rhs []float64, settlement [][3]float64) []float64 {
 	for _, c := range as.coupling {
 		f := as.fixed[c.fixed]
 		rhs[c.row] -= c.value * settlementOf(settlement, f.support, f.motion)

@@ -70,42 +70,114 @@ func sizeLimit(coefficient float64, power float64, allowed float64) float64 {
 // Over a foundation every node of the mesh enters the factorized
 // equations, whose condition grows as the fourth power of the elements
 // there: about 4/(β·h)⁴ across the member, β = (k/4EI)^¼, and 4/(α·h)²
-// along it, α = (kₐ/EA)^½. The automatic mesh keeps β·h and α·h at least
-// these, so that round-off (condition·ε) stays near 1e-5 at worst; the
-// finite element shear force, constant in each element while the bed's
-// k·w changes it, is then within about β·h = 0.4 % of its peak.
+// along it, α = (kₐ/EA)^½. Iterative refinement (groundrefine.go) brings
+// the solution back to round-off while the factorization's relative error,
+// condition·ε, stays well below 1: the automatic mesh keeps β·h and α·h at
+// least these, a condition of about 5e14 for either problem (the two share
+// the mesh, so the longer of the two floors holds). That leaves room for
+// the shear force on a soft or short bed, constant in each element while
+// the bed's k·w changes it: a member riding the bed almost rigidly feels
+// k·w ≈ 4P/L under a load P at a free end, and needs some 800 elements
+// whatever β is, which the floor allows down to β·L = 0.4. On a softer bed
+// the shear force may miss by about 0.1 %/(β·L), and the mesh's note says
+// so.
 const (
-	foundationBetaStep  = 0.004
-	foundationAlphaStep = 1e-5
+	foundationBetaStep  = 5e-4
+	foundationAlphaStep = 1e-7
 )
+
+// groundRates are β = (k/4EI)^¼ and α = (kₐ/EA)^½ of d's stretch of
+// foundation, 1/m: how fast its fields wave and decay (0 off a foundation).
+func (d *elementData) groundRates() (beta, alpha float64) {
+	if d.modulus > 0 && d.flexuralRigidity > 0 {
+		beta = math.Sqrt(math.Sqrt(d.modulus / (4 * d.flexuralRigidity)))
+	}
+	if d.axialModulus > 0 && d.axialRigidity > 0 {
+		alpha = math.Sqrt(d.axialModulus / d.axialRigidity)
+	}
+	return beta, alpha
+}
 
 // shortestOnFoundation is the shortest element the automatic mesh puts on
 // d's stretch of foundation (0 off a foundation).
 func (d *elementData) shortestOnFoundation() float64 {
+	beta, alpha := d.groundRates()
 	h := 0.0
-	if d.modulus > 0 && d.flexuralRigidity > 0 {
-		h = foundationBetaStep / math.Sqrt(math.Sqrt(d.modulus/(4*d.flexuralRigidity)))
+	if beta > 0 {
+		h = foundationBetaStep / beta
 	}
-	if d.axialModulus > 0 && d.axialRigidity > 0 {
-		h = max(h, foundationAlphaStep/math.Sqrt(d.axialModulus/d.axialRigidity))
+	if alpha > 0 {
+		h = max(h, foundationAlphaStep/alpha)
 	}
 	return h
 }
 
+// groundPieces is how many equal pieces the automatic mesh sizes d's
+// stretch in: one off a foundation, one per 1/β (or 1/α) on it, where the
+// fields and the load the bed leaves decay by e^(−1) (Hetényi, Beams on
+// Elastic Foundation, 1946: the decay of the infinite beam's solution,
+// from memory). Each piece gets the elements its own net load asks for,
+// so a long stretch is fine only where the bed takes up a load, not all
+// along.
+func (d *elementData) groundPieces() int {
+	beta, alpha := d.groundRates()
+	return max(1, int(math.Ceil(min(d.length*max(beta, alpha), maxGroundPieces))))
+}
+
+// maxGroundPieces bounds groundPieces for a stretch of extreme β·L, whose
+// fields decay to nothing within a sliver of it anyway.
+const maxGroundPieces = 4096
+
+// netLoaded is stretch d on a foundation seen as a stretch off it under
+// the load the foundation leaves, q − k·w across and p − kₐ·u along (the
+// beam's EI·w⁗ = q − k·w, the bar's −EA·u″ = p − kₐ·u): the
+// interpolation bounds of elementLength then hold as they stand, with the
+// largest net load found by sampling the exact solution e at sixteen
+// points per unit of the stretch's λ, and at eight at least. It is sharper
+// than |q| + k·|w|max, as the two largest terms seldom meet at one place
+// and cancel where the bed takes a load up. Off a foundation d is returned
+// as it is.
+func netLoaded(d elementData, e *Exact) elementData {
+	if d.modulus == 0 && d.axialModulus == 0 {
+		return d
+	}
+	k, ka := d.modulus, d.axialModulus
+	beta, alpha := d.groundRates()
+	n := 8 + int(math.Ceil(16*min(d.length*max(beta, alpha), 1e4)))
+	q, p := 0.0, 0.0
+	for i := 0; i <= n; i++ {
+		t := float64(i) / float64(n)
+		side := Right
+		if i == n {
+			side = Left
+		}
+		f := e.At(d.start+t*d.length, side)
+		q = max(q, math.Abs(d.transverseLoad[0]+t*(d.transverseLoad[1]-d.transverseLoad[0])-k*f.Deflection))
+		p = max(p, math.Abs(d.axialLoad[0]+t*(d.axialLoad[1]-d.axialLoad[0])-ka*f.AxialDisplacement))
+	}
+	d.modulus, d.transverseLoad = 0, [2]float64{q, q}
+	if ka > 0 { // a linear bar (Validate): its bound reads only the largest load
+		d.axialModulus, d.axialLoad = 0, [2]float64{p, p}
+	}
+	return d
+}
+
 // automaticCounts are the default mesh's element counts per stretch of
-// p.keys, and a note on how they were found. With load cases, every case
-// must meet the rule on the mesh.
-func (p *Member) automaticCounts() ([]int, string) {
-	n := make([]int, len(p.keys)-1)
+// p.keys, stretch j divided into len(n[j]) equal pieces (groundPieces) of
+// n[j][i] elements each, and a note on how they were found. With load
+// cases, every case must meet the rule on the mesh.
+func (p *Member) automaticCounts() ([][]int, string) {
+	n := make([][]int, len(p.keys)-1)
 	exacts, err := p.ExactLoadSets()
 	if err != nil {
 		L := p.model.Length()
 		for j := range n {
-			n[j] = max(1, int(math.Round(fallbackElements*(p.keys[j+1]-p.keys[j])/L)))
+			n[j] = []int{max(1, int(math.Round(fallbackElements*(p.keys[j+1]-p.keys[j])/L)))}
 		}
 		return n, "automatic: no exact solution to size it from, so about 100 elements spread by length"
 	}
 	bar, beam := p.model.Formulations()
+	floored := false // the rule asked for shorter elements than a foundation allows
 	for k, e := range exacts {
 		scale := exactScales(e)
 		l := &p.loadSets[k]
@@ -115,25 +187,58 @@ func (p *Member) automaticCounts() ([]int, string) {
 			d := elementData{start: a, length: b - a, sectionData: sections[p.model.SegmentAt(0.5*(a+b))],
 				axialLoad: l.Axial[j], transverseLoad: l.Transverse[j]}
 			d.modulus, d.axialModulus = p.model.foundationAt(0.5 * (a + b))
-			// Half the accuracy: the bounds are estimates.
-			tol := MeshAccuracy / 2
-			h := min(bar.elementLength(&d, &scale, tol), beam.elementLength(&d, &scale, tol))
-			h = max(h, d.shortestOnFoundation())
-			n[j] = max(n[j], 1)
-			if h < d.length {
-				n[j] = max(n[j], int(min(math.Ceil(d.length/h), maxAutomaticElements)))
+			floor := d.shortestOnFoundation()
+			if n[j] == nil {
+				n[j] = make([]int, d.groundPieces())
+			}
+			for i := range n[j] {
+				piece := d.piece(i, len(n[j]))
+				piece = netLoaded(piece, e)
+				// Half the accuracy: the bounds are estimates.
+				tol := MeshAccuracy / 2
+				h := min(bar.elementLength(&piece, &scale, tol), beam.elementLength(&piece, &scale, tol))
+				if h < floor && floor < piece.length {
+					h, floored = floor, true
+				}
+				n[j][i] = max(n[j][i], 1)
+				if h < piece.length {
+					n[j][i] = max(n[j][i], int(min(math.Ceil(piece.length/h), maxAutomaticElements)))
+				}
 			}
 		}
 	}
 	total := 0
 	for _, c := range n {
-		total += c
+		for _, ci := range c {
+			total += ci
+		}
+	}
+	if total <= maxAutomaticElements && floored {
+		return n, "automatic, for fields within 0.5 % of the exact extremes but over a foundation, whose equations limit how short its elements may be: the shear force there may miss by more"
 	}
 	if total <= maxAutomaticElements {
 		return n, "automatic, for fields within 0.5 % of the exact extremes"
 	}
-	for j := range n {
-		n[j] = max(1, n[j]*maxAutomaticElements/total)
+	for _, c := range n {
+		for i := range c {
+			c[i] = max(1, c[i]*maxAutomaticElements/total)
+		}
 	}
 	return n, "automatic, limited to 200,000 elements: the 0.5 % rule would need more"
+}
+
+// piece is the i-th of pieces equal pieces of stretch d, with the linear
+// loads along it.
+func (d *elementData) piece(i, pieces int) elementData {
+	if pieces == 1 {
+		return *d
+	}
+	out := *d
+	h := d.length / float64(pieces)
+	out.start, out.length = d.start+float64(i)*h, h
+	at := func(l [2]float64, t float64) float64 { return l[0] + t*(l[1]-l[0]) }
+	t0, t1 := float64(i)/float64(pieces), float64(i+1)/float64(pieces)
+	out.axialLoad = [2]float64{at(d.axialLoad, t0), at(d.axialLoad, t1)}
+	out.transverseLoad = [2]float64{at(d.transverseLoad, t0), at(d.transverseLoad, t1)}
+	return out
 }

@@ -92,9 +92,9 @@ func releaseCondensation(k localMatrix, f localVector, kr float64) (localMatrix,
 // starts at a hinge from its end displacements u = (w₁, θ₁, w₂, θ₂), θ₁
 // being the node's rotation: the element's row for θᵣ in equilibrium.
 func (d *elementData) releasedRotation(u [4]float64) float64 {
-	k, f := d.beamStiffness(), d.beamLoads()
-	a, kr := k[1][1], d.release
-	r := f[1] - k[1][0]*u[0] - k[1][2]*u[2] - k[1][3]*u[3]
+	a, kr := d.beamStiffness()[1][1], d.release
+	// k₁₀·w₁ + k₁₂·w₂ + k₁₃·θ₂ without loss (beamForces).
+	r := d.beamLoads()[1] - d.beamForces([4]float64{u[0], 0, u[2], u[3]})[1]
 	return r/(a+kr) + kr/(a+kr)*u[1]
 }
 

@@ -83,6 +83,9 @@
 // condition number of the key-point systems is estimated in linear time, and
 // Solution.Condition bounds the growth of round-off (relative error about
 // Condition·ε), with a warning attached when results may be unreliable.
+// Over an elastic foundation every node enters the key-point system, and
+// its solution is refined iteratively with an accurate residual
+// (groundrefine.go), so Condition there is what is left after refinement.
 //
 // Results are an aid for checking: a qualified engineer must review them, and
 // local codes and licensed practice govern any design decision.

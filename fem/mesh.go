@@ -99,7 +99,12 @@ func (p *Member) Mesh() Mesh {
 		mesh.Automatic, mesh.Note = true, note
 		return mesh
 	}
-	return p.meshWith(p.requestedCounts())
+	n := p.requestedCounts()
+	pieces := make([][]int, len(n))
+	for j, c := range n {
+		pieces[j] = []int{c}
+	}
+	return p.meshWith(pieces)
 }
 
 // requestedCounts are the element counts per stretch of p.keys that the
@@ -123,19 +128,29 @@ func (p *Member) requestedCounts() []int {
 	return n
 }
 
-// meshWith divides stretch j of p.keys uniformly into n[j] elements.
-func (p *Member) meshWith(n []int) Mesh {
+// meshWith divides stretch j of p.keys into len(n[j]) equal pieces and
+// piece i of it uniformly into n[j][i] elements.
+func (p *Member) meshWith(n [][]int) Mesh {
 	keys := p.keys
 	total := 1
 	for _, c := range n {
-		total += c
+		for _, ci := range c {
+			total += ci
+		}
 	}
 	x := make([]float64, 0, total)
 	x = append(x, keys[0])
 	for j, c := range n {
 		a, b := keys[j], keys[j+1]
-		for i := 1; i < c; i++ {
-			x = append(x, a+(b-a)*float64(i)/float64(c))
+		for i, ci := range c {
+			// Piece i runs from t0 to t1 of the stretch.
+			t0, t1 := float64(i)/float64(len(c)), float64(i+1)/float64(len(c))
+			for q := 1; q < ci; q++ {
+				x = append(x, a+(b-a)*(t0+(t1-t0)*float64(q)/float64(ci)))
+			}
+			if i < len(c)-1 {
+				x = append(x, a+(b-a)*t1)
+			}
 		}
 		x = append(x, b)
 	}

@@ -143,26 +143,22 @@ func elementActions(els []elementData, disp [][3]float64) startAction {
 	return func(j int, d Dof) float64 {
 		e := &els[j]
 		if d == Axial {
-			k, f := e.barStiffness(LinearBar), e.barLoads(LinearBar)
-			u := [2]float64{disp[j][Axial], disp[j+1][Axial]}
-			return -(k[0][0]*u[0] + k[0][1]*u[1] - f[0])
+			f := e.barLoads(LinearBar)
+			return -(e.barForces([2]float64{disp[j][Axial], disp[j+1][Axial]})[0] - f[0])
 		}
-		k, f := e.beamStiffness(), e.beamLoads()
 		start := disp[j][Rotation]
 		if e.released {
 			start = e.startRotation
 		}
-		u := [4]float64{disp[j][Transverse], start, disp[j+1][Transverse], disp[j+1][Rotation]}
-		row := 0 // V(start) = F_w(start)
-		scale := 1.0
+		// The forces from the deformation, not from differences of large
+		// terms (beamForces): a member on a soft bed moves far more than it
+		// bends.
+		k := e.beamForces([4]float64{disp[j][Transverse], start, disp[j+1][Transverse], disp[j+1][Rotation]})
+		f := e.beamLoads()
 		if d == Rotation {
-			row, scale = 1, -1 // M(start) = −F_θ(start)
+			return -(k[1] - f[1]) // M(start) = −F_θ(start)
 		}
-		v := -f[row]
-		for b, ub := range u {
-			v += k[row][b] * ub
-		}
-		return scale * v
+		return k[0] - f[0] // V(start) = F_w(start)
 	}
 }
 
