@@ -102,8 +102,8 @@ func (w *Window) fromHistory(m fem.Model) fem.Model {
 }
 
 // showEnvelope fills the readout with the envelope at x when the analysis
-// shows one: the smallest and largest value of each quantity, and the
-// combinations that give them. False when it shows one solution.
+// shows one: two rows a quantity, its smallest and its largest value, each
+// with the combination that gives it. False when it shows one solution.
 func (r *readout) showEnvelope(w *Window, x float64) bool {
 	a := w.result
 	if a.Cases == nil || a.Cases.Show.Kind != analysis.ShowEnvelope {
@@ -115,18 +115,21 @@ func (r *readout) showEnvelope(w *Window, x float64) bool {
 	if exact {
 		ex = c.Solutions.At(x, fem.Right, true)
 	}
-	r.at.SetText(fmt.Sprintf("At x = %s (under the mouse): the envelope of %d combinations, smallest … largest, and the combinations that give them", w.position(x), len(c.Combinations)))
-	r.fill(w.units, func(q fem.Quantity) (string, string) {
+	r.at.SetText(fmt.Sprintf("At x = %s (under the mouse): the envelope of %d combinations, each quantity's smallest (min) and largest (max) value and the combination that gives it", w.position(x), len(c.Combinations)))
+	r.rows = r.rows[:0]
+	for _, q := range fem.Quantities() {
 		unit := q.Info().Unit
-		span := func(s *fem.EnvelopeSample) string {
-			return shortNumber(w.units.ToDisplay(unit, q.Of(&s.Lo))) + " … " + shortNumber(w.units.ToDisplay(unit, q.Of(&s.Hi)))
+		value := func(f fem.Fields) string { return shortNumber(w.units.ToDisplay(unit, q.Of(&f))) }
+		lo, hi := quantityRow(w.units, q, " min"), quantityRow(w.units, q, " max")
+		lo[columnExact], hi[columnExact] = "—", "—"
+		if exact {
+			lo[columnExact], hi[columnExact] = value(ex.Lo), value(ex.Hi)
 		}
-		by := " (" + c.Combinations[ex.LoBy[q]].Name + " / " + c.Combinations[ex.HiBy[q]].Name + ")"
-		if !exact {
-			return "—", span(&fe) + by
-		}
-		return span(&ex) + by, span(&fe)
-	})
+		lo[columnFE], hi[columnFE] = value(fe.Lo), value(fe.Hi)
+		lo[columnGoverning], hi[columnGoverning] = c.Combinations[ex.LoBy[q]].Name, c.Combinations[ex.HiBy[q]].Name
+		r.rows = append(r.rows, lo, hi)
+	}
+	r.showRows(readoutColumns)
 	return true
 }
 
