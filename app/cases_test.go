@@ -195,3 +195,47 @@ func TestOwnLoadsAsCaseKeepsEveryAction(t *testing.T) {
 		}
 	}
 }
+
+// The sketch draws the loads of the case edited and the deflection and
+// reactions of what is shown: when the two differ it says whose each is.
+// Showing the first span's case while editing both spans' drew 10 kN/m
+// over both spans beside the reactions of the first span alone (7/16,
+// 10/16 and −1/16 of wL = 40 kN: 17.5, 25 and −2.5 kN; AISC Manual, "Beam
+// Diagrams and Formulas", continuous beam of two equal spans, one span
+// loaded), with nothing to tell them apart.
+func TestSketchSaysWhoseLoadsAndResults(t *testing.T) {
+	w, q := openTestdata(t, "two_span_cases.json", laptop)
+	for _, c := range []struct {
+		show      string
+		edit      int
+		want, not string
+	}{
+		{"case: first span", 0, "loads drawn: load case both spans; deflection and reactions: load case first span", ""},
+		{"combination: first", 2, "loads drawn: load case imposed; deflection and reactions: combination first", ""},
+		{"case: first span", 1, "", "loads drawn"},
+		{"envelope", 1, "loads drawn: load case first span; deflection and reactions: combination both", ""},
+	} {
+		w.ui.cases.caseSelect.SetSelectedIndex(c.edit)
+		w.ui.cases.showSelect.SetSelected(c.show)
+		solved(t, w, q)
+		w.draw.Refresh()
+		var all []string
+		for _, it := range w.draw.scene.Items {
+			all = append(all, it.Text)
+		}
+		text := strings.Join(all, " | ")
+		if c.want != "" && !strings.Contains(text, c.want) {
+			t.Errorf("showing %s, editing case %d: no %q among the sketch's labels %s", c.show, c.edit+1, c.want, text)
+		}
+		if c.not != "" && strings.Contains(text, c.not) {
+			t.Errorf("showing %s, editing the same case: the sketch says %q", c.show, c.not)
+		}
+		if c.show == "case: first span" {
+			for _, r := range []string{"Ry 17.50 kN", "Ry 25.00 kN", "Ry -2.500 kN"} {
+				if !strings.Contains(text, r) {
+					t.Errorf("showing the first span's case: no reaction %q among %s", r, text)
+				}
+			}
+		}
+	}
+}
