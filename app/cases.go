@@ -406,38 +406,58 @@ func (w *Window) setShow(s analysis.Show) {
 // combination with its name and kind, a column per case and per named
 // moving load train holding its factor (empty: it is not taken).
 func (w *Window) showCombinations() {
-	m := w.canonicalModel()
-	if len(m.Cases) == 0 {
+	if len(w.project.Model.Cases) == 0 {
 		w.setStatus("the model has no load cases to combine: Add a case first")
 		return
 	}
-	t := newCombinationTable(m, w.project.Trains)
-	var d dialog.Dialog
-	message := widget.NewLabel("")
-	message.Wrapping = fyne.TextWrapWord
-	message.Importance = widget.DangerImportance
+	w.newCombinationsDialog().dialog.Show()
+}
+
+// combinationsDialog is the dialog of the combinations' table.
+type combinationsDialog struct {
+	dialog       dialog.Dialog
+	table        *combinationTable
+	scroll       *container.Scroll // holds the table
+	message      *widget.Label     // why the table was not kept
+	addRow, keep *widget.Button
+}
+
+// newCombinationsDialog makes the dialog on the model's combinations; a
+// table it cannot keep is refused there, with the reason, and the dialog
+// stays open.
+func (w *Window) newCombinationsDialog() *combinationsDialog {
+	cd := &combinationsDialog{table: newCombinationTable(w.canonicalModel(), w.project.Trains), message: widget.NewLabel("")}
+	t := cd.table
+	cd.message.Wrapping = fyne.TextWrapWord
+	cd.message.Importance = widget.DangerImportance
 	note := widget.NewLabel("Factors are yours: take them from your local code. The template rows are typical values only (" + templateNote + ").")
 	note.Wrapping = fyne.TextWrapWord
-	keep := widget.NewButton("Keep these combinations", func() {
+	cd.scroll = container.NewScroll(container.NewVBox(t.grid)) // rows of their own height
+	added := func() { // the new rows come into sight
+		cd.scroll.Refresh()
+		cd.scroll.ScrollToBottom()
+	}
+	cd.keep = widget.NewButton("Keep these combinations", func() {
 		combos, err := t.combinations()
+		if err == nil {
+			err = w.changeCases("edit the combinations", w.editCase, func(m *fem.Model) error {
+				m.Combinations = combos
+				return nil
+			})
+		}
 		if err != nil {
-			message.SetText(err.Error())
+			cd.message.SetText(err.Error())
 			return
 		}
-		if w.changeCases("edit the combinations", w.editCase, func(m *fem.Model) error {
-			m.Combinations = combos
-			return nil
-		}) == nil {
-			d.Hide()
-		}
+		cd.message.SetText("")
+		cd.dialog.Hide()
 	})
-	body := container.NewBorder(note, container.NewVBox(message, container.NewHBox(
-		widget.NewButton("Add a row", func() { t.addRow(fem.Combination{Kind: fem.Strength}) }),
-		widget.NewButton("Add typical templates", t.addTemplates),
-		keep)), nil, nil, container.NewScroll(t.grid))
-	d = dialog.NewCustom("Combinations", "Cancel", body, w.win)
-	d.Resize(fyne.NewSize(760, 420))
-	d.Show()
+	cd.addRow = widget.NewButton("Add a row", func() { t.addRow(fem.Combination{Kind: fem.Strength}); added() })
+	body := container.NewBorder(note, container.NewVBox(cd.message, container.NewHBox(
+		cd.addRow, widget.NewButton("Add typical templates", func() { t.addTemplates(); added() }), cd.keep)), nil, nil, cd.scroll)
+	cd.dialog = dialog.NewCustom("Combinations", "Cancel", body, w.win)
+	cd.dialog.Resize(fyne.NewSize(760, 560)) // fits a 1280 × 720 screen
+	return cd
 }
 
 // templateNote marks every template.

@@ -6,6 +6,7 @@ import (
 	"strings"
 	"testing"
 
+	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/test"
 
 	"stave/canvas"
@@ -237,5 +238,41 @@ func TestSketchSaysWhoseLoadsAndResults(t *testing.T) {
 				}
 			}
 		}
+	}
+}
+
+// The combinations dialog says there why a table it cannot keep is
+// refused (a row that combines no case), and stays open; a row added
+// comes into sight, at 1280 × 720 below the three rows the dialog shows.
+// Keeping refused a combination without a factor in the status line
+// behind the dialog, which stayed open with no word, and the added row
+// was out of sight under the others.
+func TestCombinationsDialogSaysWhyAndShowsNewRows(t *testing.T) {
+	w, q := openTestdata(t, "two_span_cases.json", laptop)
+	solved(t, w, q)
+	before := w.Model()
+	cd := w.newCombinationsDialog()
+	cd.dialog.Show()
+	test.Tap(cd.addRow)
+	row := cd.table.rows[len(cd.table.rows)-1]
+	visible := func(o fyne.CanvasObject) bool {
+		y := fyne.CurrentApp().Driver().AbsolutePositionForObject(o).Y - fyne.CurrentApp().Driver().AbsolutePositionForObject(cd.scroll).Y
+		return y >= -0.5 && y+o.Size().Height <= cd.scroll.Size().Height+0.5
+	}
+	if !visible(row.name) {
+		t.Errorf("the row added is out of sight: the table scrolls %v in %v", cd.scroll.Offset, cd.scroll.Size())
+	}
+	test.Type(row.name, "empty")
+	test.Tap(cd.keep)
+	if !strings.Contains(cd.message.Text, "combines no load cases") {
+		t.Errorf("the dialog says %q about a combination without a factor", cd.message.Text)
+	}
+	if !reflect.DeepEqual(w.Model(), before) {
+		t.Error("a refused table changed the model")
+	}
+	row.factors[0].SetText("1.2")
+	test.Tap(cd.keep)
+	if cb := w.Model().Combinations; len(cb) != 4 || cb[3].Name != "empty" || cd.message.Text != "" {
+		t.Errorf("after a factor: combinations %+v, message %q", cb, cd.message.Text)
 	}
 }
