@@ -433,7 +433,7 @@ func (w *Window) newCombinationsDialog() *combinationsDialog {
 	note := widget.NewLabel("Factors are yours: take them from your local code. The template rows are typical values only (" + templateNote + ").")
 	note.Wrapping = fyne.TextWrapWord
 	cd.scroll = container.NewScroll(container.NewVBox(t.grid)) // rows of their own height
-	added := func() { // the new rows come into sight
+	added := func() {                                          // the new rows come into sight
 		cd.scroll.Refresh()
 		cd.scroll.ScrollToBottom()
 	}
