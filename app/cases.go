@@ -432,8 +432,9 @@ func (w *Window) newCombinationsDialog() *combinationsDialog {
 	cd.message.Importance = widget.DangerImportance
 	note := widget.NewLabel("Factors are yours: take them from your local code. The template rows are typical values only (" + templateNote + ").")
 	note.Wrapping = fyne.TextWrapWord
-	cd.scroll = container.NewScroll(container.NewVBox(t.grid)) // rows of their own height
-	added := func() {                                          // the new rows come into sight
+	// The rows keep their own height; new ones come into sight.
+	cd.scroll = container.NewScroll(container.NewVBox(t.grid))
+	added := func() {
 		cd.scroll.Refresh()
 		cd.scroll.ScrollToBottom()
 	}
