@@ -75,7 +75,7 @@ type drawing struct {
 	hovering bool
 	lastTap  time.Time
 	lastPos  fyne.Position
-	frame    *fynecanvas.Rectangle // in the focus colour while the drawing has the focus
+	frame    *fynecanvas.Rectangle // newFocusFrame
 }
 
 var (
@@ -88,8 +88,7 @@ var (
 )
 
 func newDrawing(w *Window) *drawing {
-	d := &drawing{w: w, view: canvas.NewView(800, 500), frame: fynecanvas.NewRectangle(color.Transparent)}
-	d.frame.StrokeWidth = 2
+	d := &drawing{w: w, view: canvas.NewView(800, 500), frame: newFocusFrame()}
 	d.ExtendBaseWidget(d)
 	return d
 }
@@ -152,15 +151,27 @@ func (d *drawing) MouseDown(ev *desktop.MouseEvent) {
 // the theme's focus colour shows it has the focus.
 
 // FocusGained is part of fyne.Focusable.
-func (d *drawing) FocusGained() { d.showFocus(theme.Color(theme.ColorNameFocus)) }
+func (d *drawing) FocusGained() { showFocus(d.frame, true) }
 
 // FocusLost is part of fyne.Focusable.
-func (d *drawing) FocusLost() { d.showFocus(color.Transparent) }
+func (d *drawing) FocusLost() { showFocus(d.frame, false) }
 
-// showFocus colours the frame, leaving the scene as it is.
-func (d *drawing) showFocus(c color.Color) {
-	d.frame.StrokeColor = c
-	d.frame.Refresh()
+// newFocusFrame is the frame a picture that takes the focus draws over
+// itself: in the theme's focus colour while it has the focus (showFocus),
+// clear otherwise, leaving the picture as it is.
+func newFocusFrame() *fynecanvas.Rectangle {
+	f := fynecanvas.NewRectangle(color.Transparent)
+	f.StrokeWidth = 2
+	return f
+}
+
+// showFocus colours the focus frame f for focus on or off.
+func showFocus(f *fynecanvas.Rectangle, on bool) {
+	f.StrokeColor = color.Transparent
+	if on {
+		f.StrokeColor = theme.Color(theme.ColorNameFocus)
+	}
+	f.Refresh()
 }
 
 // TypedRune is part of fyne.Focusable: the window's plain keys.

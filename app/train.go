@@ -6,6 +6,7 @@ import (
 	"strings"
 
 	"fyne.io/fyne/v2"
+	fynecanvas "fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/driver/desktop"
 	"fyne.io/fyne/v2/layout"
@@ -123,6 +124,9 @@ func (mw *movingWindow) build() {
 	}
 	mw.uniform[0].SetPlaceHolder("none")
 	mw.axles = container.NewVBox()
+	for _, e := range append([]*widget.Entry{mw.name, mw.from, mw.to, mw.step}, mw.uniform[:]...) {
+		mw.submits(e)
+	}
 	form := container.New(layout.NewFormLayout(),
 		widget.NewLabel("Name"), mw.name,
 		widget.NewLabel("Moves"), mw.direction,
@@ -256,6 +260,8 @@ func formatOrEmpty(u units.System, k units.Kind, v float64, empty bool) string {
 func (mw *movingWindow) addAxleRow(a moving.Axle) {
 	u := mw.w.units
 	r := axleRow{load: widget.NewEntry(), spacing: widget.NewEntry()}
+	mw.submits(r.load)
+	mw.submits(r.spacing)
 	r.load.SetPlaceHolder("load")
 	r.spacing.SetPlaceHolder("spacing")
 	if a.Load != 0 {
@@ -295,6 +301,12 @@ func (mw *movingWindow) rowsChanged() {
 	}
 	mw.formScroll.Content.Refresh()
 	mw.formScroll.Refresh()
+}
+
+// submits makes Enter in e apply the form, as Enter does in the
+// window's properties: at 1280 × 720 the Apply button is below the fold.
+func (mw *movingWindow) submits(e *widget.Entry) {
+	e.OnSubmitted = func(string) { mw.apply() }
 }
 
 // readAxles reads the axle table; a row left empty is skipped.
@@ -594,6 +606,7 @@ func targetUnit(t moving.Target) units.Kind {
 type movingPicture struct {
 	widget.BaseWidget
 	mw        *movingWindow
+	frame     *fynecanvas.Rectangle // newFocusFrame
 	dragStart *moving.Placement
 	dragX     float32
 }
@@ -606,7 +619,7 @@ var (
 )
 
 func newMovingPicture(mw *movingWindow) *movingPicture {
-	p := &movingPicture{mw: mw}
+	p := &movingPicture{mw: mw, frame: newFocusFrame()}
 	p.ExtendBaseWidget(p)
 	return p
 }
@@ -635,11 +648,11 @@ func (p *movingPicture) Dragged(ev *fyne.DragEvent) {
 func (p *movingPicture) DragEnd() { p.dragStart = nil }
 
 // FocusGained is part of fyne.Focusable: the picture takes the focus
-// by Tab or a click, and then ← and → move the train.
-func (p *movingPicture) FocusGained() {}
+// by Tab or a click, and then ← and → move the train; its frame shows it.
+func (p *movingPicture) FocusGained() { showFocus(p.frame, true) }
 
 // FocusLost is part of fyne.Focusable.
-func (p *movingPicture) FocusLost() {}
+func (p *movingPicture) FocusLost() { showFocus(p.frame, false) }
 
 // TypedRune is part of fyne.Focusable.
 func (p *movingPicture) TypedRune(rune) {}
@@ -696,7 +709,10 @@ type movingRenderer struct {
 	objects []fyne.CanvasObject
 }
 
-func (r *movingRenderer) Layout(fyne.Size) { r.Refresh() }
+func (r *movingRenderer) Layout(size fyne.Size) {
+	r.p.frame.Resize(size)
+	r.Refresh()
+}
 
 func (r *movingRenderer) MinSize() fyne.Size { return r.p.MinSize() }
 
@@ -706,7 +722,7 @@ func (r *movingRenderer) Refresh() {
 		return
 	}
 	s, _ := canvas.BuildMoving(r.p.mw.input(), size.Width, size.Height)
-	r.objects = drawScene(s)
+	r.objects = append(drawScene(s), r.p.frame)
 	for _, o := range r.objects {
 		o.Refresh()
 	}
