@@ -389,6 +389,9 @@ func (w *Window) setUnits(s units.System) {
 	w.hoverChanged()
 	w.draw.Refresh()
 	w.updateTitle()
+	if w.moving != nil {
+		w.moving.unitsChanged()
+	}
 }
 
 // roundStep is the step of the form 1, 2, 2.5 or 5 × 10ⁿ nearest to v > 0

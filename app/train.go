@@ -44,6 +44,12 @@ type movingWindow struct {
 	axleRows    []axleRow
 	formScroll  *container.Scroll // holds the form: laid out again when rows change
 	uniform     [3]*widget.Entry  // load, start, length
+	// The labels that name units: the axle table's heading and the
+	// uniform load's (showUnits).
+	axlesHeading, uniformLoad *widget.Label
+	// shown holds the numbers the form wrote, so a field left as it was
+	// reads back the train's own value, not its four figures.
+	shown map[*widget.Entry]shownNumber
 
 	quantity     *widget.Select
 	targetSelect *widget.Select
@@ -71,6 +77,13 @@ type movingWindow struct {
 	seq     uint64 // of the newest envelope asked for
 }
 
+// shownNumber is a number the form wrote: its text, and the value (SI)
+// it stands for.
+type shownNumber struct {
+	text  string
+	value float64
+}
+
 // axleRow is one row of the axle table.
 type axleRow struct {
 	load, spacing *widget.Entry
@@ -87,7 +100,8 @@ func (w *Window) showMovingLoads() {
 		w.moving.win.RequestFocus()
 		return
 	}
-	mw := &movingWindow{w: w, index: -1, reaction: -1, quantityIndex: slices.Index(moving.EnvelopeQuantities, fem.QBendingMoment)}
+	mw := &movingWindow{w: w, index: -1, reaction: -1, quantityIndex: slices.Index(moving.EnvelopeQuantities, fem.QBendingMoment),
+		shown: map[*widget.Entry]shownNumber{}}
 	mw.win = w.app.NewWindow("Stave — moving loads")
 	mw.build()
 	mw.win.SetOnClosed(func() { w.moving = nil })
@@ -102,7 +116,6 @@ func (w *Window) showMovingLoads() {
 }
 
 func (mw *movingWindow) build() {
-	u := mw.w.units
 	mw.readout = widget.NewLabel("")
 	mw.readout.Wrapping = fyne.TextWrapWord
 	mw.status = widget.NewLabel("")
@@ -135,8 +148,10 @@ func (mw *movingWindow) build() {
 		widget.NewLabel(""), mw.offEnds,
 		widget.NewLabel("Step"), mw.step,
 	)
+	mw.axlesHeading, mw.uniformLoad = heading(""), widget.NewLabel("")
+	mw.showUnits()
 	uniform := container.New(layout.NewFormLayout(),
-		widget.NewLabel("Load ("+u.Unit(units.LineLoad).Symbol+")"), mw.uniform[0],
+		mw.uniformLoad, mw.uniform[0],
 		widget.NewLabel("Behind the front"), mw.uniform[1],
 		widget.NewLabel("Length"), mw.uniform[2],
 	)
@@ -145,7 +160,7 @@ func (mw *movingWindow) build() {
 		container.NewBorder(nil, nil, nil, container.NewHBox(
 			widget.NewButton("New", mw.newTrain), widget.NewButton("Delete", mw.deleteTrain)), mw.trainSelect),
 		form,
-		heading(fmt.Sprintf("Axles, front first (load in %s, spacing from the axle before in %s)", u.Unit(units.Force).Symbol, u.Unit(units.Position).Symbol)),
+		mw.axlesHeading,
 		mw.axles,
 		widget.NewButton("Add an axle", func() { mw.addAxleRow(moving.Axle{}); mw.rowsChanged() }),
 		heading("Uniform load moving with it"),
@@ -182,6 +197,26 @@ func (mw *movingWindow) build() {
 	split := container.NewHSplit(mw.formScroll, center)
 	split.SetOffset(0.27)
 	mw.win.SetContent(container.NewBorder(nil, container.NewVBox(widget.NewSeparator(), mw.status, warning), nil, nil, split))
+}
+
+// showUnits names the window's units in the labels that say them.
+func (mw *movingWindow) showUnits() {
+	u := mw.w.units
+	mw.axlesHeading.SetText(fmt.Sprintf("Axles, front first (load in %s, spacing from the axle before in %s)", u.Unit(units.Force).Symbol, u.Unit(units.Position).Symbol))
+	mw.uniformLoad.SetText("Load (" + u.Unit(units.LineLoad).Symbol + ")")
+}
+
+// unitsChanged shows the train in the window's new units: the numbers of
+// the form are written again in them (a number typed and not applied is
+// dropped, as the properties of the window drop theirs), and the labels,
+// the choices and the readout name them.
+func (mw *movingWindow) unitsChanged() {
+	mw.showUnits()
+	if mw.index >= 0 {
+		mw.choose(mw.index)
+		return
+	}
+	mw.modelChanged()
 }
 
 // refreshChoices lists the trains and the reactions a line may be of.
@@ -229,49 +264,70 @@ func (mw *movingWindow) supportOf(k int) int {
 func (mw *movingWindow) choose(i int) {
 	mw.index = i
 	t := mw.w.project.Trains[i]
-	u := mw.w.units
 	mw.name.SetText(t.Name)
 	mw.direction.SetSelected(t.Direction.String())
-	mw.from.SetText(formatOrEmpty(u, units.Position, t.From, false))
-	mw.to.SetText(formatOrEmpty(u, units.Position, t.To, true))
+	mw.setNumber(mw.from, units.Position, t.From, false)
+	mw.setNumber(mw.to, units.Position, t.To, true)
 	mw.offEnds.SetChecked(t.OffEnds)
-	mw.step.SetText(formatOrEmpty(u, units.Position, t.Step, true))
-	mw.axles.RemoveAll()
-	mw.axleRows = nil
-	for _, a := range t.Axles {
-		mw.addAxleRow(a)
-	}
-	mw.rowsChanged()
-	mw.uniform[0].SetText(formatOrEmpty(u, units.LineLoad, t.Uniform.Load, true))
-	mw.uniform[1].SetText(formatOrEmpty(u, units.Position, t.Uniform.Start, t.Uniform.Load == 0))
-	mw.uniform[2].SetText(formatOrEmpty(u, units.Position, t.Uniform.Length, t.Uniform.Load == 0))
+	mw.setNumber(mw.step, units.Position, t.Step, true)
+	mw.setAxleRows(t.Axles)
+	mw.setNumber(mw.uniform[0], units.LineLoad, t.Uniform.Load, true)
+	mw.setNumber(mw.uniform[1], units.Position, t.Uniform.Start, t.Uniform.Load == 0)
+	mw.setNumber(mw.uniform[2], units.Position, t.Uniform.Length, t.Uniform.Load == 0)
 	mw.modelChanged()
 }
 
-// formatOrEmpty writes v in display units without the unit symbol, or
-// nothing for a zero that means "not given" (empty).
-func formatOrEmpty(u units.System, k units.Kind, v float64, empty bool) string {
-	if v == 0 && empty {
-		return ""
+// setNumber writes v, of kind k, in e in display units without the unit
+// symbol, or nothing for a zero that means "not given" (empty), and keeps
+// it for number.
+func (mw *movingWindow) setNumber(e *widget.Entry, k units.Kind, v float64, empty bool) {
+	text := ""
+	if v != 0 || !empty {
+		text = units.FormatNumber(mw.w.units.ToDisplay(k, v))
 	}
-	return units.FormatNumber(u.ToDisplay(k, v))
+	mw.shown[e] = shownNumber{text, v}
+	e.SetText(text)
+}
+
+// number reads e as a value of kind k, SI: the value setNumber wrote while
+// its text is as written, else what is typed there (0 for nothing, when
+// optional).
+func (mw *movingWindow) number(e *widget.Entry, k units.Kind, optional bool) (float64, error) {
+	if s, ok := mw.shown[e]; ok && e.Text == s.text {
+		return s.value, nil
+	}
+	if optional && strings.TrimSpace(e.Text) == "" {
+		return 0, nil
+	}
+	return mw.w.units.Parse(k, e.Text)
+}
+
+// setAxleRows fills the axle table with a row per axle.
+func (mw *movingWindow) setAxleRows(axles []moving.Axle) {
+	for _, r := range mw.axleRows {
+		delete(mw.shown, r.load)
+		delete(mw.shown, r.spacing)
+	}
+	mw.axles.RemoveAll()
+	mw.axleRows = nil
+	for _, a := range axles {
+		mw.addAxleRow(a)
+	}
+	mw.rowsChanged()
 }
 
 func (mw *movingWindow) addAxleRow(a moving.Axle) {
-	u := mw.w.units
 	r := axleRow{load: widget.NewEntry(), spacing: widget.NewEntry()}
 	mw.submits(r.load)
 	mw.submits(r.spacing)
 	r.load.SetPlaceHolder("load")
 	r.spacing.SetPlaceHolder("spacing")
-	if a.Load != 0 {
-		r.load.SetText(formatOrEmpty(u, units.Force, a.Load, true))
-	}
+	mw.setNumber(r.load, units.Force, a.Load, true)
 	if len(mw.axleRows) == 0 {
 		r.spacing.SetPlaceHolder("(the front)")
 		r.spacing.Disable()
 	} else {
-		r.spacing.SetText(formatOrEmpty(u, units.Position, a.Spacing, true))
+		mw.setNumber(r.spacing, units.Position, a.Spacing, true)
 	}
 	remove := widget.NewButton("×", nil)
 	r.row = container.NewBorder(nil, nil, widget.NewLabel(fmt.Sprintf("%d", len(mw.axleRows)+1)), remove, container.NewGridWithColumns(2, r.load, r.spacing))
@@ -280,15 +336,11 @@ func (mw *movingWindow) addAxleRow(a moving.Axle) {
 		if k < 0 {
 			return
 		}
+		delete(mw.shown, r.load)
+		delete(mw.shown, r.spacing)
+		mw.axleRows = slices.Delete(mw.axleRows, k, k+1)
 		axles, _ := mw.readAxles()
-		mw.axles.RemoveAll()
-		mw.axleRows = nil
-		for j, a := range axles {
-			if j != k {
-				mw.addAxleRow(a)
-			}
-		}
-		mw.rowsChanged()
+		mw.setAxleRows(axles)
 	}
 	mw.axleRows = append(mw.axleRows, r)
 	mw.axles.Add(r.row)
@@ -311,7 +363,6 @@ func (mw *movingWindow) submits(e *widget.Entry) {
 
 // readAxles reads the axle table; a row left empty is skipped.
 func (mw *movingWindow) readAxles() ([]moving.Axle, error) {
-	u := mw.w.units
 	var out []moving.Axle
 	for i, r := range mw.axleRows {
 		if strings.TrimSpace(r.load.Text) == "" && strings.TrimSpace(r.spacing.Text) == "" {
@@ -319,11 +370,11 @@ func (mw *movingWindow) readAxles() ([]moving.Axle, error) {
 		}
 		var a moving.Axle
 		var err error
-		if a.Load, err = u.Parse(units.Force, r.load.Text); err != nil {
+		if a.Load, err = mw.number(r.load, units.Force, false); err != nil {
 			return out, fmt.Errorf("axle %d, load: %v", i+1, err)
 		}
 		if len(out) > 0 {
-			if a.Spacing, err = u.Parse(units.Position, r.spacing.Text); err != nil {
+			if a.Spacing, err = mw.number(r.spacing, units.Position, false); err != nil {
 				return out, fmt.Errorf("axle %d, spacing: %v", i+1, err)
 			}
 		}
@@ -334,16 +385,12 @@ func (mw *movingWindow) readAxles() ([]moving.Axle, error) {
 
 // readTrain reads the form into a train.
 func (mw *movingWindow) readTrain() (moving.Train, error) {
-	u := mw.w.units
 	t := moving.Train{Name: strings.TrimSpace(mw.name.Text)}
 	d, _ := moving.ParseDirection(mw.direction.Selected)
 	t.Direction = d
 	t.OffEnds = mw.offEnds.Checked
 	read := func(e *widget.Entry, k units.Kind, what string) (float64, error) {
-		if strings.TrimSpace(e.Text) == "" {
-			return 0, nil
-		}
-		v, err := u.Parse(k, e.Text)
+		v, err := mw.number(e, k, true)
 		if err != nil {
 			return 0, fmt.Errorf("%s: %v", what, err)
 		}

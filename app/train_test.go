@@ -6,6 +6,7 @@ import (
 	"path/filepath"
 	"reflect"
 	"slices"
+	"strings"
 	"testing"
 
 	"fyne.io/fyne/v2"
@@ -14,6 +15,7 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"stave/fem/moving"
+	"stave/fem/units"
 	"stave/storage"
 )
 
@@ -141,5 +143,67 @@ func TestMovingWindowByKeyboard(t *testing.T) {
 	c.Unfocus()
 	if mw.pic.frame.StrokeColor != color.Transparent {
 		t.Errorf("the picture out of focus has a frame of %v", mw.pic.frame.StrokeColor)
+	}
+}
+
+// The train's form follows the window's units: switched to US units with
+// the moving loads window open, its fields and headings read kip and ft,
+// and applying the form leaves the train as it was. The form kept "42.00"
+// under a heading of kN, and Apply read it as 42 kip (186.8 kN).
+func TestMovingWindowFollowsTheUnits(t *testing.T) {
+	w, q, mw := runwayWindow(t)
+	// The form writes four figures; applying it untouched keeps the
+	// train's own numbers, not those figures.
+	w.project.Trains[0].Axles[0].Load = 42345
+	w.project.Trains[0].Step = 0.05004
+	mw.choose(0)
+	want := moving.CloneTrains(w.project.Trains)
+	mw.apply()
+	if got := w.project.Trains; !reflect.DeepEqual(got, want) {
+		t.Errorf("applying the form untouched made the train %+v, want %+v", got[0], want[0])
+	}
+	w.project.Trains[0].Axles[0].Load, w.project.Trains[0].Step = 42e3, 0.05
+	mw.choose(0)
+	want = moving.CloneTrains(w.project.Trains)
+	w.setUnits(units.USCustomary)
+	finished(t, w, q)
+	// 42 kN is 42000 / 4448.2216152605 kip = 9.442 kip (NIST SP 811,
+	// Appendix B: 1 lbf = 4.4482216152605 N); 3.2 m is 10.50 ft.
+	if got := mw.axleRows[0].load.Text; got != "9.442" {
+		t.Errorf("the first axle's load reads %q in US units, want 9.442 (kip)", got)
+	}
+	if got := mw.axleRows[1].spacing.Text; got != "10.50" {
+		t.Errorf("the second axle's spacing reads %q in US units, want 10.50 (ft)", got)
+	}
+	if !strings.Contains(mw.axlesHeading.Text, "kip") || strings.Contains(mw.axlesHeading.Text, "kN") {
+		t.Errorf("the axles' heading says %q in US units", mw.axlesHeading.Text)
+	}
+	mw.apply()
+	if got := w.project.Trains; !reflect.DeepEqual(got[0].Axles, want[0].Axles) {
+		t.Errorf("applying the form in US units made the axles %+v, want %+v", got[0].Axles, want[0].Axles)
+	}
+}
+
+// The × of an axle row removes that row, even with a row above it left
+// empty: the table was read without the empty row, and the row's place in
+// the table then named the axle after it (here none: nothing was removed).
+func TestMovingWindowRemovesTheAxleClicked(t *testing.T) {
+	_, q, mw := runwayWindow(t)
+	mw.choose(1)
+	q.waitFor(t, "the cart's envelope", func() bool { return mw.env != nil && mw.env.Train.Name == "maintenance cart" })
+	mw.axleRows[0].load.SetText("")
+	remove := func(r axleRow) *widget.Button {
+		for _, o := range test.LaidOutObjects(r.row) {
+			if b, ok := o.(*widget.Button); ok && b.Text == "×" {
+				return b
+			}
+		}
+		t.Fatal("no × in the axle row")
+		return nil
+	}
+	test.Tap(remove(mw.axleRows[2]))
+	axles, err := mw.readAxles()
+	if err != nil || len(axles) != 1 || axles[0].Load != 9000 {
+		t.Errorf("after removing the third of the cart's axles (the first left empty): %+v, %v; want the second alone, 9 kN", axles, err)
 	}
 }
