@@ -13,6 +13,7 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
+	"stave/canvas/report"
 	"stave/fem"
 	"stave/fem/moving"
 	"stave/fem/units"
@@ -470,13 +471,18 @@ func (mw *movingWindow) deleteTrain() {
 // background, the shown train's envelope.
 func (mw *movingWindow) modelChanged() {
 	mw.refreshChoices()
-	m := mw.w.project.Model.Clone()
 	mw.member, mw.infl, mw.env = nil, nil, nil
-	p, err := fem.Prepare(&m)
+	// The member as files and the command line have it, every load in
+	// its case; one the window still lets be refused (a case not yet
+	// given loads) has the same lines without its loads.
+	p := mw.w.canonical()
+	member, infl, err := report.InfluenceOf(&p)
+	if err != nil {
+		p.Model = moving.Unloaded(&p.Model)
+		member, infl, err = report.InfluenceOf(&p)
+	}
 	if err == nil {
-		mw.member = p
-		mw.mesh = p.Mesh()
-		mw.infl, err = moving.New(p)
+		mw.member, mw.mesh, mw.infl = member, member.Mesh(), infl
 	}
 	if err != nil {
 		mw.status.SetText("no influence lines: " + err.Error())
@@ -489,7 +495,7 @@ func (mw *movingWindow) modelChanged() {
 		return
 	}
 	t := mw.w.project.Trains[mw.index]
-	if err := t.Check(m.Length(), mw.index); err != nil {
+	if err := t.Check(p.Model.Length(), mw.index); err != nil {
 		mw.status.SetText(err.Error())
 		return
 	}

@@ -14,6 +14,7 @@ import (
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
+	"stave/canvas/report"
 	"stave/fem/moving"
 	"stave/fem/units"
 	"stave/storage"
@@ -206,4 +207,67 @@ func TestMovingWindowRemovesTheAxleClicked(t *testing.T) {
 	if err != nil || len(axles) != 1 || axles[0].Load != 9000 {
 		t.Errorf("after removing the third of the cart's axles (the first left empty): %+v, %v; want the second alone, 9 kN", axles, err)
 	}
+}
+
+// The moving loads window works on the member as the command line does:
+// on a model with load cases (it prepared the window's model with the
+// loads of the case edited lifted out of it, and refused it: 'load case
+// "both spans" is empty'), and on a member whose only loads are its trains
+// with the mesh left to Stave (it took the automatic mesh of one element a
+// span, so the train stood at 3 positions 4.4 m apart, and its largest
+// moment at x = 2.1 m read 32.7 kN·m). The train's largest moment at a
+// point is the influence line's closed form (Müller-
+// Breslau; two equal spans L = 6 m, M_B = −P·ξ(L² − ξ²)/(4L²) from the
+// three-moment equation, Timoshenko & Young, from memory): 56.57 kN·m at
+// x = 2.1 m, the two 42 kN axles at 2.1 and 5.3 m.
+func TestMovingWindowWorksAsTheCommandLine(t *testing.T) {
+	cased, err := storage.Load(filepath.Join("..", "testdata", "two_span_cases.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	cased.Trains = []moving.Train{{Name: "pair", Axles: []moving.Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}}}
+	bare, err := storage.Load(filepath.Join("..", "testdata", "moving", "runway.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	bare.Model.Gravity, bare.Model.Mesh.Elements = [2]float64{}, 0
+	bare.Trains = bare.Trains[:1]
+	bare.Trains[0].Step = 0
+	for name, p := range map[string]*storage.Project{"two spans with cases": cased, "runway with no loads": bare} {
+		w, q := newTestWindow(t, p)
+		w.showMovingLoads()
+		mw := w.moving
+		q.waitFor(t, "the envelope of "+name, func() bool { return mw.env != nil || mw.infl == nil })
+		if mw.infl == nil {
+			t.Errorf("%s: no influence lines: %s", name, mw.status.Text)
+			continue
+		}
+		want := canonicalInfluence(t, w)
+		if mw.env.Step != want.Step || mw.env.Positions != want.Positions {
+			t.Errorf("%s: the train stands at %d positions %g m apart, the command line's at %d, %g m apart", name, mw.env.Positions, mw.env.Step, want.Positions, want.Step)
+		}
+		if name == "runway with no loads" {
+			// With a step that puts the rear axle on x = 2.1 m.
+			w.project.Trains[0].Step = 0.1
+			mw.modelChanged()
+			q.waitFor(t, "the envelope by steps of 0.1 m", func() bool { return mw.env != nil })
+			mw.pinned, mw.pointX = true, 2.1
+			mw.showLine()
+			if hi := mw.worst[0].Value; math.Abs(hi-56.568e3) > 0.01e3 {
+				t.Errorf("%s: the train's largest moment at x = 2.1 m is %g N·m, want 56.57 kN·m", name, hi)
+			}
+		}
+	}
+}
+
+// canonicalInfluence is the first train's envelope as the command line
+// works it out on the window's project.
+func canonicalInfluence(t *testing.T, w *Window) *moving.Envelope {
+	t.Helper()
+	p := w.canonical()
+	rs, err := report.TrainEnvelopes(&p)
+	if err != nil || len(rs) == 0 || rs[0].Err != nil {
+		t.Fatalf("the command line's train envelopes: %v %+v", err, rs)
+	}
+	return rs[0].Envelope
 }
