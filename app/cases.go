@@ -557,8 +557,8 @@ func (t *combinationTable) addTemplates() {
 	t.addRow(service)
 }
 
-// combinations reads the table; rows with no name and no factor are
-// left out. A factor that is not a number is refused with its place.
+// combinations reads the table; rows with no name and no factor (of a
+// case or a train) are left out. A factor that is not a number is refused with its place.
 func (t *combinationTable) combinations() ([]fem.Combination, error) {
 	var out []fem.Combination
 	for i, r := range t.rows {
@@ -593,7 +593,7 @@ func (t *combinationTable) combinations() ([]fem.Combination, error) {
 				cb.Trains = append(cb.Trains, fem.TrainFactor{Train: t.trains[j], Factor: f})
 			}
 		}
-		if cb.Name == "" && len(cb.Factors) == 0 {
+		if cb.Name == "" && len(cb.Factors) == 0 && len(cb.Trains) == 0 {
 			continue
 		}
 		out = append(out, cb)

@@ -171,6 +171,13 @@ func TestCombinationTableTrains(t *testing.T) {
 	if combos, err = tab.combinations(); err != nil || len(combos[0].Trains) != 0 {
 		t.Errorf("an empty cell keeps the train: %+v, %v", combos, err)
 	}
+	// A row with a train's factor alone is kept, for the model to say
+	// what it lacks; it was dropped, the factor typed lost without a word.
+	tab.addRow(fem.Combination{Kind: fem.Strength})
+	tab.rows[1].trains[0].SetText("1.5")
+	if combos, err = tab.combinations(); err != nil || len(combos) != 2 || len(combos[1].Trains) != 1 {
+		t.Errorf("a row with a train's factor alone gave %+v, %v", combos, err)
+	}
 }
 
 // A model without cases that gets one keeps every action in the case its
