@@ -8,7 +8,6 @@ import (
 	"fyne.io/fyne/v2"
 	fynecanvas "fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/driver/desktop"
-	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
@@ -155,24 +154,6 @@ func (d *drawing) FocusGained() { showFocus(d.frame, true) }
 
 // FocusLost is part of fyne.Focusable.
 func (d *drawing) FocusLost() { showFocus(d.frame, false) }
-
-// newFocusFrame is the frame a picture that takes the focus draws over
-// itself: in the theme's focus colour while it has the focus (showFocus),
-// clear otherwise, leaving the picture as it is.
-func newFocusFrame() *fynecanvas.Rectangle {
-	f := fynecanvas.NewRectangle(color.Transparent)
-	f.StrokeWidth = 2
-	return f
-}
-
-// showFocus colours the focus frame f for focus on or off.
-func showFocus(f *fynecanvas.Rectangle, on bool) {
-	f.StrokeColor = color.Transparent
-	if on {
-		f.StrokeColor = theme.Color(theme.ColorNameFocus)
-	}
-	f.Refresh()
-}
 
 // TypedRune is part of fyne.Focusable: the window's plain keys.
 func (d *drawing) TypedRune(r rune) {
