@@ -147,7 +147,7 @@ func (d *drawing) MouseDown(ev *desktop.MouseEvent) {
 // The drawing takes the focus, by a click or by Tab, so a keyboard user
 // who tabbed into the panels can come back to it: there the keys the
 // window reads with nothing in focus (bindKeys) act as well. A frame in
-// the theme's focus colour shows it has the focus.
+// the theme's primary colour shows it has the focus.
 
 // FocusGained is part of fyne.Focusable.
 func (d *drawing) FocusGained() { showFocus(d.frame, true) }

@@ -10,8 +10,10 @@ import (
 )
 
 // newFocusFrame is the frame a picture that takes the focus draws over
-// itself: in the theme's focus colour while it has the focus (showFocus),
-// clear otherwise, leaving the picture as it is.
+// itself: in the theme's primary colour while it has the focus
+// (showFocus), clear otherwise, leaving the picture as it is. The focus
+// colour, a blue at a sixth of full strength, hardly showed on the white
+// of a picture.
 func newFocusFrame() *fynecanvas.Rectangle {
 	f := fynecanvas.NewRectangle(color.Transparent)
 	f.StrokeWidth = 2
@@ -22,7 +24,7 @@ func newFocusFrame() *fynecanvas.Rectangle {
 func showFocus(f *fynecanvas.Rectangle, on bool) {
 	f.StrokeColor = color.Transparent
 	if on {
-		f.StrokeColor = theme.Color(theme.ColorNameFocus)
+		f.StrokeColor = theme.Color(theme.ColorNamePrimary)
 	}
 	f.Refresh()
 }

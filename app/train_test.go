@@ -106,8 +106,8 @@ func TestMovingWindowShowsEveryAxle(t *testing.T) {
 // The train's form works from the keyboard: Enter in any of its fields
 // applies it, as Enter does in the window's properties, since at 1280 ×
 // 720 the Apply button lies below the form's fold; and the picture shows
-// a frame in the focus colour while it has the focus (← and → then move
-// the train). Enter did nothing, and the picture gave no sign of focus.
+// a frame while it has the focus (← and → then move the train). Enter
+// did nothing, and the picture gave no sign of focus.
 func TestMovingWindowByKeyboard(t *testing.T) {
 	w, q, mw := runwayWindow(t)
 	fields := map[string]*widget.Entry{"spacing": mw.axleRows[1].spacing, "name": mw.name, "step": mw.step}
@@ -133,7 +133,7 @@ func TestMovingWindowByKeyboard(t *testing.T) {
 	q.waitFor(t, "the envelope", func() bool { return mw.env != nil })
 	c := mw.win.Canvas()
 	c.Focus(mw.pic)
-	if mw.pic.frame.StrokeColor != theme.Color(theme.ColorNameFocus) || !slices.Contains(test.WidgetRenderer(mw.pic).Objects(), fyne.CanvasObject(mw.pic.frame)) {
+	if mw.pic.frame.StrokeColor != theme.Color(theme.ColorNamePrimary) || !slices.Contains(test.WidgetRenderer(mw.pic).Objects(), fyne.CanvasObject(mw.pic.frame)) {
 		t.Errorf("the picture in focus has a frame of %v, drawn %v", mw.pic.frame.StrokeColor, slices.Contains(test.WidgetRenderer(mw.pic).Objects(), fyne.CanvasObject(mw.pic.frame)))
 	}
 	before := mw.at
