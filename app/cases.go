@@ -349,7 +349,7 @@ func (w *Window) deleteCase() {
 		return
 	}
 	k := w.editCase
-	w.changeCases("delete load case "+m.Cases[k].Name, max(k-1, 0), func(m *fem.Model) error {
+	err := w.changeCases("delete load case "+m.Cases[k].Name, max(k-1, 0), func(m *fem.Model) error {
 		m.Cases = append(m.Cases[:k], m.Cases[k+1:]...)
 		for i := range m.Combinations {
 			cb := &m.Combinations[i]
@@ -374,9 +374,34 @@ func (w *Window) deleteCase() {
 		}
 		return nil
 	})
-	if w.show.Kind != analysis.ShowEnvelope {
-		w.setShow(analysis.Show{Kind: analysis.ShowEnvelope})
+	if err == nil {
+		w.setShow(shownAfterDeletion(w.show, k, m, w.project.Model))
 	}
+}
+
+// shownAfterDeletion is what to show of after, the model before with case
+// k deleted, in place of s, shown before: the same case or combination
+// where it still is, else the envelope.
+func shownAfterDeletion(s analysis.Show, k int, before, after fem.Model) analysis.Show {
+	envelope := analysis.Show{Kind: analysis.ShowEnvelope}
+	switch s.Kind {
+	case analysis.ShowCase:
+		if s.Index == k || len(after.Cases) == 0 {
+			return envelope
+		}
+		return analysis.Show{Kind: analysis.ShowCase, Index: s.Index - min(max(s.Index-k, 0), 1)}
+	case analysis.ShowCombination:
+		was := before.EnvelopeCombinations()
+		if s.Index < 0 || s.Index >= len(was) {
+			return envelope
+		}
+		for i, cb := range after.EnvelopeCombinations() {
+			if cb.Name == was[s.Index].Name {
+				return analysis.Show{Kind: analysis.ShowCombination, Index: i}
+			}
+		}
+	}
+	return envelope
 }
 
 // setCaseFlag sets one flag of the case edited.

@@ -283,3 +283,33 @@ func TestCombinationsDialogSaysWhyAndShowsNewRows(t *testing.T) {
 		t.Errorf("after a factor: combinations %+v, message %q", cb, cd.message.Text)
 	}
 }
+
+// Deleting a load case keeps showing what is shown when it is still there
+// (a case after it, a combination that keeps a factor), and shows the
+// envelope when it went with the case. It showed the envelope after every
+// deletion.
+func TestDeletingACaseKeepsWhatIsShown(t *testing.T) {
+	for _, c := range []struct {
+		show   string
+		delete int
+		want   string
+	}{
+		{"case: imposed", 0, "case: imposed"},
+		{"case: first span", 1, "envelope"},
+		{"combination: pattern", 1, "combination: pattern"},
+		{"combination: first", 1, "envelope"},
+		{"combination: pattern", 2, "envelope"},
+	} {
+		w, q := openTestdata(t, "two_span_cases.json", laptop)
+		w.ui.cases.showSelect.SetSelected(c.show)
+		w.ui.cases.caseSelect.SetSelectedIndex(c.delete)
+		w.deleteCase()
+		finished(t, w, q)
+		if got := w.ui.cases.showSelect.Selected; got != c.want {
+			t.Errorf("showing %s, deleting case %d: the window shows %q, want %q", c.show, c.delete+1, got, c.want)
+		}
+		if got, want := w.result.Cases.Show, w.show; got != want && want.Kind != analysis.ShowEnvelope {
+			t.Errorf("showing %s, deleting case %d: the analysis shows %+v, the choice %+v", c.show, c.delete+1, got, want)
+		}
+	}
+}
