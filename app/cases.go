@@ -115,7 +115,7 @@ func (r *readout) showEnvelope(w *Window, x float64) bool {
 	if exact {
 		ex = c.Solutions.At(x, fem.Right, true)
 	}
-	r.at.SetText(fmt.Sprintf("At x = %s (under the mouse): the envelope of %d combinations, each quantity's smallest (min) and largest (max) value and the combination that gives it", w.position(x), len(c.Combinations)))
+	r.at.SetText(fmt.Sprintf("At x = %s (under the mouse): envelope of %d combinations, each quantity's min and max", w.position(x), len(c.Combinations)))
 	r.rows = r.rows[:0]
 	for _, q := range fem.Quantities() {
 		unit := q.Info().Unit
