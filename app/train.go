@@ -294,13 +294,14 @@ func (mw *movingWindow) setNumber(e *widget.Entry, k units.Kind, v float64, empt
 // its text is as written, else what is typed there (0 for nothing, when
 // optional).
 func (mw *movingWindow) number(e *widget.Entry, k units.Kind, optional bool) (float64, error) {
-	if s, ok := mw.shown[e]; ok && e.Text == s.text {
+	empty := strings.TrimSpace(e.Text) == ""
+	if s, ok := mw.shown[e]; ok && e.Text == s.text && !empty {
 		return s.value, nil
 	}
-	if optional && strings.TrimSpace(e.Text) == "" {
+	if optional && empty {
 		return 0, nil
 	}
-	return mw.w.units.Parse(k, e.Text)
+	return mw.w.units.Parse(k, e.Text) // says what an empty field lacks
 }
 
 // setAxleRows fills the axle table with a row per axle.
