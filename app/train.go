@@ -54,6 +54,7 @@ type movingWindow struct {
 
 	quantity     *widget.Select
 	targetSelect *widget.Select
+	point        *widget.Entry // where the line of a field is, typed (pinAt)
 	pic          *movingPicture
 	readout      *widget.Label
 	status       *widget.Label
@@ -189,9 +190,12 @@ func (mw *movingWindow) build() {
 	wide := func(o fyne.CanvasObject, w float32) fyne.CanvasObject {
 		return container.NewGridWrap(fyne.NewSize(w, o.MinSize().Height), o)
 	}
+	mw.point = widget.NewEntry()
+	mw.point.SetPlaceHolder("under the mouse")
+	mw.point.OnSubmitted = mw.pinAt
 	top := newFlow(widget.NewLabel("Field"), wide(mw.quantity, 190), widget.NewLabel("Influence line of"), wide(mw.targetSelect, 380),
-		widget.NewButton("Worst position", mw.toWorst))
-	hint := widget.NewLabel("Drag the train along the member (or ← and → after a click or Tab on the picture); the influence line follows the mouse, a click pins it to a point (click again to let go).")
+		container.NewHBox(widget.NewLabel("at x"), wide(mw.point, 150)), widget.NewButton("Worst position", mw.toWorst))
+	hint := widget.NewLabel("Drag the train along the member (or ← and → after a click or Tab on the picture); the influence line follows the mouse, a click pins it to a point (click again to let go), or type the point's x and press Enter.")
 	hint.Wrapping = fyne.TextWrapWord
 	center := container.NewBorder(top, container.NewVBox(mw.readout, hint), nil, nil, mw.pic)
 	mw.formScroll = container.NewVScroll(left)
@@ -213,6 +217,7 @@ func (mw *movingWindow) showUnits() {
 // the choices and the readout name them.
 func (mw *movingWindow) unitsChanged() {
 	mw.showUnits()
+	mw.showPoint()
 	if mw.index >= 0 {
 		mw.choose(mw.index)
 		return
@@ -530,6 +535,42 @@ func (mw *movingWindow) envelopeReady(seq uint64, env *moving.Envelope, err erro
 	mw.toWorst()
 }
 
+// pinAt pins the line of the field at the x typed, in display units or
+// with a unit, and shows it; nothing typed lets it follow the mouse again.
+// A point off the member is refused with the reason.
+func (mw *movingWindow) pinAt(text string) {
+	if strings.TrimSpace(text) == "" {
+		mw.pinned = false
+		mw.showLine()
+		return
+	}
+	u := mw.w.units
+	x, err := u.Parse(units.Position, text)
+	if L := mw.w.project.Model.Length(); err == nil && (x < 0 || x > L) {
+		err = fmt.Errorf("x = %s is off the member, which runs from 0 to %s", u.Format(units.Position, x), u.Format(units.Position, L))
+	}
+	if err != nil {
+		mw.status.SetText("influence line at x: " + err.Error())
+		return
+	}
+	if mw.reaction >= 0 {
+		mw.targetSelect.SetSelectedIndex(0) // the field's line, not a reaction's
+	}
+	mw.pinned, mw.pointX = true, x
+	mw.showPoint()
+	mw.showLine()
+}
+
+// showPoint writes the pinned point in its field, or nothing while the
+// line follows the mouse.
+func (mw *movingWindow) showPoint() {
+	text := ""
+	if mw.pinned {
+		text = units.FormatNumber(mw.w.units.ToDisplay(units.Position, mw.pointX))
+	}
+	mw.point.SetText(text)
+}
+
 // target is the influence line's target now.
 func (mw *movingWindow) target() moving.Target {
 	if s := mw.supportOf(mw.reaction); s >= 0 {
@@ -736,6 +777,7 @@ func (p *movingPicture) Tapped(ev *fyne.PointEvent) {
 	} else {
 		mw.pinned, mw.pointX = true, p.modelX(ev.Position.X)
 	}
+	mw.showPoint()
 	mw.showLine()
 }
 
