@@ -102,8 +102,8 @@ func (w *Window) fromHistory(m fem.Model) fem.Model {
 }
 
 // showEnvelope fills the readout with the envelope at x when the analysis
-// shows one: the smallest and largest value of each quantity, and the
-// combinations that give them. False when it shows one solution.
+// shows one: two rows a quantity, its smallest and its largest value, each
+// with the combination that gives it. False when it shows one solution.
 func (r *readout) showEnvelope(w *Window, x float64) bool {
 	a := w.result
 	if a.Cases == nil || a.Cases.Show.Kind != analysis.ShowEnvelope {
@@ -115,18 +115,21 @@ func (r *readout) showEnvelope(w *Window, x float64) bool {
 	if exact {
 		ex = c.Solutions.At(x, fem.Right, true)
 	}
-	r.at.SetText(fmt.Sprintf("At x = %s (under the mouse): the envelope of %d combinations, smallest … largest, and the combinations that give them", w.position(x), len(c.Combinations)))
-	r.fill(w.units, func(q fem.Quantity) (string, string) {
+	r.at.SetText(fmt.Sprintf("At x = %s (under the mouse): envelope of %d combinations, each quantity's min and max", w.position(x), len(c.Combinations)))
+	r.rows = r.rows[:0]
+	for _, q := range fem.Quantities() {
 		unit := q.Info().Unit
-		span := func(s *fem.EnvelopeSample) string {
-			return shortNumber(w.units.ToDisplay(unit, q.Of(&s.Lo))) + " … " + shortNumber(w.units.ToDisplay(unit, q.Of(&s.Hi)))
+		value := func(f fem.Fields) string { return shortNumber(w.units.ToDisplay(unit, q.Of(&f))) }
+		lo, hi := quantityRow(w.units, q, " min"), quantityRow(w.units, q, " max")
+		lo[columnExact], hi[columnExact] = "—", "—"
+		if exact {
+			lo[columnExact], hi[columnExact] = value(ex.Lo), value(ex.Hi)
 		}
-		by := " (" + c.Combinations[ex.LoBy[q]].Name + " / " + c.Combinations[ex.HiBy[q]].Name + ")"
-		if !exact {
-			return "—", span(&fe) + by
-		}
-		return span(&ex) + by, span(&fe)
-	})
+		lo[columnFE], hi[columnFE] = value(fe.Lo), value(fe.Hi)
+		lo[columnGoverning], hi[columnGoverning] = c.Combinations[ex.LoBy[q]].Name, c.Combinations[ex.HiBy[q]].Name
+		r.rows = append(r.rows, lo, hi)
+	}
+	r.showRows(readoutColumns)
 	return true
 }
 
@@ -346,7 +349,7 @@ func (w *Window) deleteCase() {
 		return
 	}
 	k := w.editCase
-	w.changeCases("delete load case "+m.Cases[k].Name, max(k-1, 0), func(m *fem.Model) error {
+	err := w.changeCases("delete load case "+m.Cases[k].Name, max(k-1, 0), func(m *fem.Model) error {
 		m.Cases = append(m.Cases[:k], m.Cases[k+1:]...)
 		for i := range m.Combinations {
 			cb := &m.Combinations[i]
@@ -371,9 +374,34 @@ func (w *Window) deleteCase() {
 		}
 		return nil
 	})
-	if w.show.Kind != analysis.ShowEnvelope {
-		w.setShow(analysis.Show{Kind: analysis.ShowEnvelope})
+	if err == nil {
+		w.setShow(shownAfterDeletion(w.show, k, m, w.project.Model))
 	}
+}
+
+// shownAfterDeletion is what to show of after, the model before with case
+// k deleted, in place of s, shown before: the same case or combination
+// where it still is, else the envelope.
+func shownAfterDeletion(s analysis.Show, k int, before, after fem.Model) analysis.Show {
+	envelope := analysis.Show{Kind: analysis.ShowEnvelope}
+	switch s.Kind {
+	case analysis.ShowCase:
+		if s.Index == k || len(after.Cases) == 0 {
+			return envelope
+		}
+		return analysis.Show{Kind: analysis.ShowCase, Index: s.Index - min(max(s.Index-k, 0), 1)}
+	case analysis.ShowCombination:
+		was := before.EnvelopeCombinations()
+		if s.Index < 0 || s.Index >= len(was) {
+			return envelope
+		}
+		for i, cb := range after.EnvelopeCombinations() {
+			if cb.Name == was[s.Index].Name {
+				return analysis.Show{Kind: analysis.ShowCombination, Index: i}
+			}
+		}
+	}
+	return envelope
 }
 
 // setCaseFlag sets one flag of the case edited.
@@ -403,38 +431,59 @@ func (w *Window) setShow(s analysis.Show) {
 // combination with its name and kind, a column per case and per named
 // moving load train holding its factor (empty: it is not taken).
 func (w *Window) showCombinations() {
-	m := w.canonicalModel()
-	if len(m.Cases) == 0 {
+	if len(w.project.Model.Cases) == 0 {
 		w.setStatus("the model has no load cases to combine: Add a case first")
 		return
 	}
-	t := newCombinationTable(m, w.project.Trains)
-	var d dialog.Dialog
-	message := widget.NewLabel("")
-	message.Wrapping = fyne.TextWrapWord
-	message.Importance = widget.DangerImportance
+	w.newCombinationsDialog().dialog.Show()
+}
+
+// combinationsDialog is the dialog of the combinations' table.
+type combinationsDialog struct {
+	dialog       dialog.Dialog
+	table        *combinationTable
+	scroll       *container.Scroll // holds the table
+	message      *widget.Label     // why the table was not kept
+	addRow, keep *widget.Button
+}
+
+// newCombinationsDialog makes the dialog on the model's combinations; a
+// table it cannot keep is refused there, with the reason, and the dialog
+// stays open.
+func (w *Window) newCombinationsDialog() *combinationsDialog {
+	cd := &combinationsDialog{table: newCombinationTable(w.canonicalModel(), w.project.Trains), message: widget.NewLabel("")}
+	t := cd.table
+	cd.message.Wrapping = fyne.TextWrapWord
+	cd.message.Importance = widget.DangerImportance
 	note := widget.NewLabel("Factors are yours: take them from your local code. The template rows are typical values only (" + templateNote + ").")
 	note.Wrapping = fyne.TextWrapWord
-	keep := widget.NewButton("Keep these combinations", func() {
+	// The rows keep their own height; new ones come into sight.
+	cd.scroll = container.NewScroll(container.NewVBox(t.grid))
+	added := func() {
+		cd.scroll.Refresh()
+		cd.scroll.ScrollToBottom()
+	}
+	cd.keep = widget.NewButton("Keep these combinations", func() {
 		combos, err := t.combinations()
+		if err == nil {
+			err = w.changeCases("edit the combinations", w.editCase, func(m *fem.Model) error {
+				m.Combinations = combos
+				return nil
+			})
+		}
 		if err != nil {
-			message.SetText(err.Error())
+			cd.message.SetText(err.Error())
 			return
 		}
-		if w.changeCases("edit the combinations", w.editCase, func(m *fem.Model) error {
-			m.Combinations = combos
-			return nil
-		}) == nil {
-			d.Hide()
-		}
+		cd.message.SetText("")
+		cd.dialog.Hide()
 	})
-	body := container.NewBorder(note, container.NewVBox(message, container.NewHBox(
-		widget.NewButton("Add a row", func() { t.addRow(fem.Combination{Kind: fem.Strength}) }),
-		widget.NewButton("Add typical templates", t.addTemplates),
-		keep)), nil, nil, container.NewScroll(t.grid))
-	d = dialog.NewCustom("Combinations", "Cancel", body, w.win)
-	d.Resize(fyne.NewSize(760, 420))
-	d.Show()
+	cd.addRow = widget.NewButton("Add a row", func() { t.addRow(fem.Combination{Kind: fem.Strength}); added() })
+	body := container.NewBorder(note, container.NewVBox(cd.message, container.NewHBox(
+		cd.addRow, widget.NewButton("Add typical templates", func() { t.addTemplates(); added() }), cd.keep)), nil, nil, cd.scroll)
+	cd.dialog = dialog.NewCustom("Combinations", "Cancel", body, w.win)
+	cd.dialog.Resize(fyne.NewSize(760, 560)) // fits a 1280 × 720 screen
+	return cd
 }
 
 // templateNote marks every template.
@@ -533,8 +582,8 @@ func (t *combinationTable) addTemplates() {
 	t.addRow(service)
 }
 
-// combinations reads the table; rows with no name and no factor are
-// left out. A factor that is not a number is refused with its place.
+// combinations reads the table; rows with no name and no factor (of a
+// case or a train) are left out. A factor that is not a number is refused with its place.
 func (t *combinationTable) combinations() ([]fem.Combination, error) {
 	var out []fem.Combination
 	for i, r := range t.rows {
@@ -569,7 +618,7 @@ func (t *combinationTable) combinations() ([]fem.Combination, error) {
 				cb.Trains = append(cb.Trains, fem.TrainFactor{Train: t.trains[j], Factor: f})
 			}
 		}
-		if cb.Name == "" && len(cb.Factors) == 0 {
+		if cb.Name == "" && len(cb.Factors) == 0 && len(cb.Trains) == 0 {
 			continue
 		}
 		out = append(out, cb)

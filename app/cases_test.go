@@ -85,17 +85,9 @@ func TestCasesInTheWindow(t *testing.T) {
 	if txt := w.ui.readout.at.Text; !strings.Contains(txt, "envelope of 2 combinations") {
 		t.Errorf("readout heading %q", txt)
 	}
-	row := w.ui.readout.rows[fem.QBendingMoment]
-	if !strings.Contains(row[columnFE], "…") || !strings.Contains(row[columnExact], "…") || !strings.Contains(row[columnExact], "strength") {
-		t.Errorf("readout of M: %q", row)
-	}
-	// Its columns are wide enough for the ranges: no cell runs into the next.
-	for _, c := range []int{columnExact, columnFE} {
-		for _, r := range w.ui.readout.rows {
-			if need := fyne.MeasureText(r[c], readoutTextSize(), fyne.TextStyle{}).Width; need > w.ui.readout.widths[c] {
-				t.Errorf("column %d is %.0f wide for %q, which needs %.0f", c, w.ui.readout.widths[c], r[c], need)
-			}
-		}
+	lo, hi := envelopeRows(t, w.ui.readout, fem.QBendingMoment)
+	if lo[columnFE] == "" || lo[columnExact] == "" || !strings.Contains(lo[columnGoverning]+hi[columnGoverning], "strength") {
+		t.Errorf("readout of M: %q, %q", lo, hi)
 	}
 	// The checks name their governing combination.
 	named := false
@@ -179,6 +171,13 @@ func TestCombinationTableTrains(t *testing.T) {
 	if combos, err = tab.combinations(); err != nil || len(combos[0].Trains) != 0 {
 		t.Errorf("an empty cell keeps the train: %+v, %v", combos, err)
 	}
+	// A row with a train's factor alone is kept, for the model to say
+	// what it lacks; it was dropped, the factor typed lost without a word.
+	tab.addRow(fem.Combination{Kind: fem.Strength})
+	tab.rows[1].trains[0].SetText("1.5")
+	if combos, err = tab.combinations(); err != nil || len(combos) != 2 || len(combos[1].Trains) != 1 {
+		t.Errorf("a row with a train's factor alone gave %+v, %v", combos, err)
+	}
 }
 
 // A model without cases that gets one keeps every action in the case its
@@ -201,6 +200,116 @@ func TestOwnLoadsAsCaseKeepsEveryAction(t *testing.T) {
 		lc := ownLoadsAsCase(m).Cases[0]
 		if lc.Settlements != c.settlements || lc.ThermalGradient != c.difference || len(lc.PointLoads) != 1 {
 			t.Errorf("%s: case %+v, want settlements %v and temperature differences %v", c.name, lc, c.settlements, c.difference)
+		}
+	}
+}
+
+// The sketch draws the loads of the case edited and the deflection and
+// reactions of what is shown: when the two differ it says whose each is.
+// Showing the first span's case while editing both spans' drew 10 kN/m
+// over both spans beside the reactions of the first span alone (7/16,
+// 10/16 and −1/16 of wL = 40 kN: 17.5, 25 and −2.5 kN; AISC Manual, "Beam
+// Diagrams and Formulas", continuous beam of two equal spans, one span
+// loaded), with nothing to tell them apart.
+func TestSketchSaysWhoseLoadsAndResults(t *testing.T) {
+	w, q := openTestdata(t, "two_span_cases.json", laptop)
+	for _, c := range []struct {
+		show      string
+		edit      int
+		want, not string
+	}{
+		{"case: first span", 0, "loads drawn: load case both spans; deflection and reactions: load case first span", ""},
+		{"combination: first", 2, "loads drawn: load case imposed; deflection and reactions: combination first", ""},
+		{"case: first span", 1, "", "loads drawn"},
+		{"envelope", 1, "loads drawn: load case first span; deflection and reactions: combination both", ""},
+	} {
+		w.ui.cases.caseSelect.SetSelectedIndex(c.edit)
+		w.ui.cases.showSelect.SetSelected(c.show)
+		solved(t, w, q)
+		w.draw.Refresh()
+		var all []string
+		for _, it := range w.draw.scene.Items {
+			all = append(all, it.Text)
+		}
+		text := strings.Join(all, " | ")
+		if c.want != "" && !strings.Contains(text, c.want) {
+			t.Errorf("showing %s, editing case %d: no %q among the sketch's labels %s", c.show, c.edit+1, c.want, text)
+		}
+		if c.not != "" && strings.Contains(text, c.not) {
+			t.Errorf("showing %s, editing the same case: the sketch says %q", c.show, c.not)
+		}
+		if c.show == "case: first span" {
+			for _, r := range []string{"Ry 17.50 kN", "Ry 25.00 kN", "Ry -2.500 kN"} {
+				if !strings.Contains(text, r) {
+					t.Errorf("showing the first span's case: no reaction %q among %s", r, text)
+				}
+			}
+		}
+	}
+}
+
+// The combinations dialog says there why a table it cannot keep is
+// refused (a row that combines no case), and stays open; a row added
+// comes into sight, at 1280 × 720 below the three rows the dialog shows.
+// Keeping refused a combination without a factor in the status line
+// behind the dialog, which stayed open with no word, and the added row
+// was out of sight under the others.
+func TestCombinationsDialogSaysWhyAndShowsNewRows(t *testing.T) {
+	w, q := openTestdata(t, "two_span_cases.json", laptop)
+	solved(t, w, q)
+	before := w.Model()
+	cd := w.newCombinationsDialog()
+	cd.dialog.Show()
+	test.Tap(cd.addRow)
+	row := cd.table.rows[len(cd.table.rows)-1]
+	visible := func(o fyne.CanvasObject) bool {
+		y := fyne.CurrentApp().Driver().AbsolutePositionForObject(o).Y - fyne.CurrentApp().Driver().AbsolutePositionForObject(cd.scroll).Y
+		return y >= -0.5 && y+o.Size().Height <= cd.scroll.Size().Height+0.5
+	}
+	if !visible(row.name) {
+		t.Errorf("the row added is out of sight: the table scrolls %v in %v", cd.scroll.Offset, cd.scroll.Size())
+	}
+	test.Type(row.name, "empty")
+	test.Tap(cd.keep)
+	if !strings.Contains(cd.message.Text, "combines no load cases") {
+		t.Errorf("the dialog says %q about a combination without a factor", cd.message.Text)
+	}
+	if !reflect.DeepEqual(w.Model(), before) {
+		t.Error("a refused table changed the model")
+	}
+	row.factors[0].SetText("1.2")
+	test.Tap(cd.keep)
+	if cb := w.Model().Combinations; len(cb) != 4 || cb[3].Name != "empty" || cd.message.Text != "" {
+		t.Errorf("after a factor: combinations %+v, message %q", cb, cd.message.Text)
+	}
+}
+
+// Deleting a load case keeps showing what is shown when it is still there
+// (a case after it, a combination that keeps a factor), and shows the
+// envelope when it went with the case. It showed the envelope after every
+// deletion.
+func TestDeletingACaseKeepsWhatIsShown(t *testing.T) {
+	for _, c := range []struct {
+		show   string
+		delete int
+		want   string
+	}{
+		{"case: imposed", 0, "case: imposed"},
+		{"case: first span", 1, "envelope"},
+		{"combination: pattern", 1, "combination: pattern"},
+		{"combination: first", 1, "envelope"},
+		{"combination: pattern", 2, "envelope"},
+	} {
+		w, q := openTestdata(t, "two_span_cases.json", laptop)
+		w.ui.cases.showSelect.SetSelected(c.show)
+		w.ui.cases.caseSelect.SetSelectedIndex(c.delete)
+		w.deleteCase()
+		finished(t, w, q)
+		if got := w.ui.cases.showSelect.Selected; got != c.want {
+			t.Errorf("showing %s, deleting case %d: the window shows %q, want %q", c.show, c.delete+1, got, c.want)
+		}
+		if got, want := w.result.Cases.Show, w.show; got != want && want.Kind != analysis.ShowEnvelope {
+			t.Errorf("showing %s, deleting case %d: the analysis shows %+v, the choice %+v", c.show, c.delete+1, got, want)
 		}
 	}
 }

@@ -8,7 +8,6 @@ import (
 	"fyne.io/fyne/v2"
 	fynecanvas "fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/driver/desktop"
-	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
@@ -75,7 +74,7 @@ type drawing struct {
 	hovering bool
 	lastTap  time.Time
 	lastPos  fyne.Position
-	frame    *fynecanvas.Rectangle // in the focus colour while the drawing has the focus
+	frame    *fynecanvas.Rectangle // newFocusFrame
 }
 
 var (
@@ -88,8 +87,7 @@ var (
 )
 
 func newDrawing(w *Window) *drawing {
-	d := &drawing{w: w, view: canvas.NewView(800, 500), frame: fynecanvas.NewRectangle(color.Transparent)}
-	d.frame.StrokeWidth = 2
+	d := &drawing{w: w, view: canvas.NewView(800, 500), frame: newFocusFrame()}
 	d.ExtendBaseWidget(d)
 	return d
 }
@@ -149,19 +147,13 @@ func (d *drawing) MouseDown(ev *desktop.MouseEvent) {
 // The drawing takes the focus, by a click or by Tab, so a keyboard user
 // who tabbed into the panels can come back to it: there the keys the
 // window reads with nothing in focus (bindKeys) act as well. A frame in
-// the theme's focus colour shows it has the focus.
+// the theme's primary colour shows it has the focus.
 
 // FocusGained is part of fyne.Focusable.
-func (d *drawing) FocusGained() { d.showFocus(theme.Color(theme.ColorNameFocus)) }
+func (d *drawing) FocusGained() { showFocus(d.frame, true) }
 
 // FocusLost is part of fyne.Focusable.
-func (d *drawing) FocusLost() { d.showFocus(color.Transparent) }
-
-// showFocus colours the frame, leaving the scene as it is.
-func (d *drawing) showFocus(c color.Color) {
-	d.frame.StrokeColor = c
-	d.frame.Refresh()
-}
+func (d *drawing) FocusLost() { showFocus(d.frame, false) }
 
 // TypedRune is part of fyne.Focusable: the window's plain keys.
 func (d *drawing) TypedRune(r rune) {

@@ -1,12 +1,18 @@
 package app
 
 import (
+	"image/color"
+	"math"
+	"slices"
 	"testing"
 
 	"fyne.io/fyne/v2"
+	fynecanvas "fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/test"
+	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
+	"stave/canvas"
 	"stave/fem/moving"
 )
 
@@ -134,4 +140,118 @@ func TestMovingLoadsByKeyboard(t *testing.T) {
 			t.Errorf("%s moved the train from %+v to %+v, want one position on, %+v", c.key, before, mw.at, want)
 		}
 	}
+}
+
+// The focus shows on a button of high importance (the active tool, the
+// properties' Apply): fyne shades a focused button with its focus colour,
+// blue at a sixth of full strength, which on a blue button changed its
+// colour from (41, 111, 246) to (34, 111, 247) in a screenshot of the
+// window, so the first stop of Tab, the Pick tool, looked unfocused. Such
+// a button draws a ring in the text colour while it has the focus, in
+// contrast with the button of at least 3:1 (WCAG 2.1, success criterion
+// 1.4.11, non-text contrast; from memory).
+func TestFocusShowsOnStrongButtons(t *testing.T) {
+	w, _ := openTestdata(t, "two_span_cases.json", laptop)
+	c := w.win.Canvas()
+	c.Unfocus()
+	c.FocusNext()
+	pick, ok := c.Focused().(*ringButton)
+	if !ok || pick.Text != "Pick  (Q)" {
+		t.Fatalf("the first stop of Tab is %T, want the Pick tool", c.Focused())
+	}
+	w.selectItem(canvas.Ref{Kind: canvas.Member})
+	var apply *ringButton
+	for _, o := range test.LaidOutObjects(w.ui.properties) {
+		if b, ok := o.(*ringButton); ok && b.Text == "Apply" {
+			apply = b
+		}
+	}
+	if apply == nil {
+		t.Fatal("no Apply button of high importance in the properties")
+	}
+	// In the window's themes, dark and light (the test app has a theme
+	// of its own).
+	for _, v := range []fyne.ThemeVariant{theme.VariantDark, theme.VariantLight} {
+		fyne.CurrentApp().Settings().SetTheme(variantTheme{theme.DefaultTheme(), v})
+		for _, b := range []*ringButton{pick, apply} {
+			c.Focus(b)
+			if !slices.Contains(test.WidgetRenderer(b).Objects(), fyne.CanvasObject(b.ring)) {
+				t.Errorf("%q: its ring is not drawn", b.Text)
+			}
+			for _, n := range []fyne.ThemeColorName{theme.ColorNamePrimary, theme.ColorNameBackground} {
+				if r := contrast(b.ring.StrokeColor, theme.Color(n)); b.ring.StrokeWidth < 1 || r < 3 {
+					t.Errorf("variant %d, %q in focus: a ring %v px wide, contrast %.2f:1 with the colour %s", v, b.Text, b.ring.StrokeWidth, r, n)
+				}
+			}
+			c.Unfocus()
+			if _, _, _, a := b.ring.StrokeColor.RGBA(); a != 0 {
+				t.Errorf("%q out of focus keeps its ring", b.Text)
+			}
+		}
+	}
+}
+
+// variantTheme is a theme in one variant, whatever the settings say.
+type variantTheme struct {
+	fyne.Theme
+	variant fyne.ThemeVariant
+}
+
+func (t variantTheme) Color(n fyne.ThemeColorName, _ fyne.ThemeVariant) color.Color {
+	return t.Theme.Color(n, t.variant)
+}
+
+// contrast is the contrast ratio of two colours, (L1 + 0.05)/(L2 + 0.05)
+// of their relative luminances (WCAG 2.1, definitions of contrast ratio
+// and relative luminance; from memory), alpha ignored.
+func contrast(a, b color.Color) float64 {
+	lum := func(c color.Color) float64 {
+		r, g, bl, _ := c.RGBA()
+		lin := func(v uint32) float64 {
+			s := float64(v) / 0xffff
+			if s <= 0.03928 {
+				return s / 12.92
+			}
+			return math.Pow((s+0.055)/1.055, 2.4)
+		}
+		return 0.2126*lin(r) + 0.7152*lin(g) + 0.0722*lin(bl)
+	}
+	la, lb := lum(a), lum(b)
+	return (max(la, lb) + 0.05) / (min(la, lb) + 0.05)
+}
+
+// The drawing and the moving loads picture, white, show the focus with a
+// frame that stands out from them and from the window round them, at
+// least 3:1 (WCAG 2.1, success criterion 1.4.11; from memory), in the
+// window's themes. The frame was in fyne's focus colour, a blue at a
+// sixth of full strength: about 1.2:1 on white.
+func TestPicturesShowTheFocus(t *testing.T) {
+	w, q, mw := runwayWindow(t)
+	finished(t, w, q)
+	white := color.NRGBA{R: 0xfb, G: 0xfb, B: 0xf8, A: 0xff} // the drawing's paper
+	for _, v := range []fyne.ThemeVariant{theme.VariantDark, theme.VariantLight} {
+		fyne.CurrentApp().Settings().SetTheme(variantTheme{theme.DefaultTheme(), v})
+		for name, f := range map[string]struct {
+			c     fyne.Canvas
+			o     fyne.Focusable
+			frame *fynecanvas.Rectangle
+		}{"drawing": {w.win.Canvas(), w.draw, w.draw.frame}, "moving loads picture": {mw.win.Canvas(), mw.pic, mw.pic.frame}} {
+			f.c.Focus(f.o)
+			seen := over(f.frame.StrokeColor, white)
+			for _, against := range []color.Color{white, theme.Color(theme.ColorNameBackground)} {
+				if r := contrast(seen, against); r < 3 {
+					t.Errorf("variant %d, the %s in focus: a frame of %v (%v on the paper), contrast %.2f:1 with %v", v, name, f.frame.StrokeColor, seen, r, against)
+				}
+			}
+			f.c.Unfocus()
+		}
+	}
+}
+
+// over is a drawn over b, as a translucent a shows.
+func over(a, b color.Color) color.Color {
+	ar, ag, ab, aa := a.RGBA() // premultiplied
+	br, bg, bb, _ := b.RGBA()
+	mix := func(x, y uint32) uint8 { return uint8((x + y*(0xffff-aa)/0xffff) >> 8) }
+	return color.NRGBA{R: mix(ar, br), G: mix(ag, bg), B: mix(ab, bb), A: 0xff}
 }

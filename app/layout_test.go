@@ -2,6 +2,7 @@ package app
 
 import (
 	"path/filepath"
+	"strconv"
 	"testing"
 
 	"fyne.io/fyne/v2"
@@ -10,6 +11,8 @@ import (
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
+	"stave/fem"
+	"stave/fem/units"
 	"stave/storage"
 )
 
@@ -171,4 +174,62 @@ func TestTabFollowsTheScreen(t *testing.T) {
 		}
 	}
 	t.Fatal("Tab never came back to the first widget")
+}
+
+// On a laptop's screen the envelope's readout shows, without scrolling
+// sideways, every quantity's smallest and largest value, exact and FE side
+// by side with the unit: its FE column ran past the pane at 1280 px wide,
+// where the governing combinations' names widened the exact column. The
+// values of the two equal spans (4 m, 10 kN/m on each or on one) are the
+// beam tables' (AISC Manual, "Beam Diagrams and Formulas", continuous
+// beam, two equal spans): over the middle support M = −wL²/8 = −20 kN·m
+// with both loaded, −wL²/16 = −10 kN·m with one.
+func TestEnvelopeReadoutFitsALaptopScreen(t *testing.T) {
+	w, q := openTestdata(t, "two_span_cases.json", laptop)
+	finished(t, w, q)
+	r := w.ui.readout
+	for _, sys := range []units.System{units.SI, units.USCustomary} {
+		w.setUnits(sys)
+		finished(t, w, q)
+		for _, x := range []float64{0.3, 1.5, 2.9, 4, 5.71, 7.6} {
+			w.draw.hovering, w.draw.hoverX = true, x
+			w.hoverChanged()
+			var used float32
+			for c := columnQuantity; c <= columnUnit; c++ {
+				used += r.widths[c]
+			}
+			if room := r.table.Size().Width; used > room+0.5 {
+				t.Errorf("%s, x = %g m: the quantity, exact, FE and unit columns need %.0f px, the readout is %.0f wide", sys.Name, x, used, room)
+			}
+			for _, row := range r.rows {
+				for c, text := range row {
+					if need := fyne.MeasureText(text, readoutTextSize(), fyne.TextStyle{}).Width; need > r.widths[c] {
+						t.Errorf("%s, x = %g m: column %d is %.0f wide for %q, which needs %.0f", sys.Name, x, c, r.widths[c], text, need)
+					}
+				}
+			}
+		}
+	}
+	// Over the middle support, in SI: the smallest moment is the one of
+	// both spans loaded, and the largest no more than one span's.
+	w.setUnits(units.SI)
+	finished(t, w, q)
+	w.draw.hovering, w.draw.hoverX = true, 4
+	w.hoverChanged()
+	lo, hi := envelopeRows(t, r, fem.QBendingMoment)
+	if lo[columnExact] != "-20.00" || lo[columnUnit] != "kN·m" || lo[columnGoverning] == "" || hi[columnGoverning] == "" {
+		t.Errorf("envelope of M at x = 4 m: smallest %q, largest %q; want -20.00 kN·m and the combinations named", lo, hi)
+	}
+	if v, err := strconv.ParseFloat(hi[columnExact], 64); err != nil || v < -10 || v > 0 {
+		t.Errorf("envelope of M at x = 4 m: largest %q, want between −wL²/16 = −10 and 0 kN·m", hi[columnExact])
+	}
+}
+
+// envelopeRows are the readout's rows of q's smallest and largest value.
+func envelopeRows(t *testing.T, r *readout, q fem.Quantity) (lo, hi [readoutColumns]string) {
+	t.Helper()
+	if len(r.rows) != 2*len(fem.Quantities()) {
+		t.Fatalf("the envelope's readout has %d rows, want two per quantity", len(r.rows))
+	}
+	return r.rows[2*int(q)], r.rows[2*int(q)+1]
 }

@@ -43,7 +43,7 @@ var supportKinds = []fem.SupportKind{fem.Fixed, fem.Pinned, fem.Roller, fem.Axia
 // controls are the widgets around the drawing.
 type controls struct {
 	w            *Window
-	toolButtons  map[tool]*widget.Button
+	toolButtons  map[tool]*ringButton
 	strip        *container.Scroll // the tools and the load cases, left of the drawing
 	kindSelect   *widget.Select
 	cases        *casesPanel
@@ -69,13 +69,13 @@ type controls struct {
 // mouse and the checks, each in a pane that scrolls; the status and the
 // caution at the foot.
 func (w *Window) build() {
-	c := &controls{w: w, toolButtons: map[tool]*widget.Button{}, layerChecks: map[*bool]*widget.Check{}}
+	c := &controls{w: w, toolButtons: map[tool]*ringButton{}, layerChecks: map[*bool]*widget.Check{}}
 	w.ui = c
 	w.status = newStatusLine(w)
 
 	strip := container.NewVBox(heading("Tools"))
 	for _, t := range tools {
-		b := widget.NewButton(fmt.Sprintf("%s  (%c)", t.label, t.key-'a'+'A'), func() { w.setTool(t.tool) })
+		b := newRingButton(fmt.Sprintf("%s  (%c)", t.label, t.key-'a'+'A'), func() { w.setTool(t.tool) })
 		b.Alignment = widget.ButtonAlignLeading
 		c.toolButtons[t.tool] = b
 		strip.Add(b)
@@ -389,6 +389,9 @@ func (w *Window) setUnits(s units.System) {
 	w.hoverChanged()
 	w.draw.Refresh()
 	w.updateTitle()
+	if w.moving != nil {
+		w.moving.unitsChanged()
+	}
 }
 
 // roundStep is the step of the form 1, 2, 2.5 or 5 × 10ⁿ nearest to v > 0

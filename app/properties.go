@@ -218,7 +218,7 @@ func (c *controls) showProperties() {
 	// The buttons stay in view below the fields, which scroll.
 	var buttons []fyne.CanvasObject
 	if len(fields) > 0 {
-		apply := widget.NewButton("Apply", applyAll)
+		apply := newRingButton("Apply", applyAll)
 		apply.Importance = widget.HighImportance
 		buttons = append(buttons, apply)
 	}

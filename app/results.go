@@ -17,11 +17,16 @@ import (
 // readout shows every quantity at the mouse x in a table: the quantity,
 // its exact value (the headline) and the finite element value beside it in
 // aligned columns, and the unit. Without an exact solution the exact
-// column reads "—" and the line above says the values are FE.
+// column reads "—" and the line above says the values are FE. An
+// envelope takes two rows a quantity, its smallest and its largest value,
+// each with the combination that gives it in a last column: the ranges
+// with the names in one row ran past a laptop screen's readout.
 type readout struct {
 	at    *widget.Label
 	table *widget.Table
 	rows  [][readoutColumns]string
+	// columns is the number shown: the governing column is an envelope's.
+	columns int
 	// least are the columns' widths for plain numbers; widths those set
 	// now, wider where a row's text needs it (the envelope's ranges).
 	least, widths [readoutColumns]float32
@@ -33,13 +38,14 @@ const (
 	columnExact
 	columnFE
 	columnUnit
+	columnGoverning // an envelope's: the combination that gives the value
 	readoutColumns
 )
 
-var readoutHeadings = [readoutColumns]string{"", "exact", "FE", "unit"}
+var readoutHeadings = [readoutColumns]string{"", "exact", "FE", "unit", "governing"}
 
 func newReadout() *readout {
-	r := &readout{at: widget.NewLabel("")}
+	r := &readout{at: widget.NewLabel(""), columns: columnGoverning}
 	r.at.Wrapping = fyne.TextWrapWord
 	size := readoutTextSize()
 	cell := func() fyne.CanvasObject {
@@ -48,7 +54,7 @@ func newReadout() *readout {
 		return container.New(layout.NewCustomPaddedLayout(0, 0, 4, 4), t)
 	}
 	r.table = widget.NewTable(
-		func() (int, int) { return len(r.rows), readoutColumns },
+		func() (int, int) { return len(r.rows), r.columns },
 		cell,
 		func(id widget.TableCellID, o fyne.CanvasObject) {
 			setCell(o, r.rows[id.Row][id.Col], id.Col == columnFE || id.Col == columnExact, false)
@@ -60,7 +66,7 @@ func newReadout() *readout {
 			setCell(o, readoutHeadings[id.Col], id.Col == columnFE || id.Col == columnExact, true)
 		}
 	}
-	widths := [readoutColumns]float32{}
+	widths := [readoutColumns]float32{columnGoverning: fyne.MeasureText(readoutHeadings[columnGoverning], size, fyne.TextStyle{Bold: true}).Width}
 	for _, q := range fem.Quantities() {
 		widths[columnQuantity] = max(widths[columnQuantity], fyne.MeasureText(q.Info().Label, size, fyne.TextStyle{}).Width)
 		for _, s := range units.Systems() {
@@ -108,21 +114,32 @@ func (r *readout) clear(u units.System) {
 func (r *readout) fill(u units.System, value func(fem.Quantity) (exact, fe string)) {
 	r.rows = r.rows[:0]
 	for _, q := range fem.Quantities() {
-		var row [readoutColumns]string
-		row[columnQuantity], row[columnUnit] = q.Info().Label, u.Unit(q.Info().Unit).Symbol
+		row := quantityRow(u, q, "")
 		row[columnExact], row[columnFE] = value(q)
 		r.rows = append(r.rows, row)
 	}
+	r.showRows(columnGoverning)
+}
+
+// quantityRow is a row of q, its label followed by suffix, with its unit in u.
+func quantityRow(u units.System, q fem.Quantity, suffix string) [readoutColumns]string {
+	var row [readoutColumns]string
+	row[columnQuantity], row[columnUnit] = q.Info().Label+suffix, u.Unit(q.Info().Unit).Symbol
+	return row
+}
+
+// showRows draws the rows in the first columns, fitted to their text.
+func (r *readout) showRows(columns int) {
+	r.columns = columns
 	r.fitColumns()
 	r.table.Refresh()
 }
 
-// fitColumns widens the value columns to their longest text (an
-// envelope's range with the combinations that give it), so no cell runs
-// into the next; the table scrolls sideways when they pass the panel.
+// fitColumns widens each column to its longest text, so no cell runs into
+// the next; the table scrolls sideways when they pass the panel.
 func (r *readout) fitColumns() {
 	size := readoutTextSize()
-	for _, c := range []int{columnExact, columnFE} {
+	for c := range readoutColumns {
 		w := r.least[c]
 		for _, row := range r.rows {
 			w = max(w, fyne.MeasureText(row[c], size, fyne.TextStyle{}).Width+12)

@@ -6,12 +6,14 @@ import (
 	"strings"
 
 	"fyne.io/fyne/v2"
+	fynecanvas "fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/driver/desktop"
 	"fyne.io/fyne/v2/layout"
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
+	"stave/canvas/report"
 	"stave/fem"
 	"stave/fem/moving"
 	"stave/fem/units"
@@ -43,9 +45,16 @@ type movingWindow struct {
 	axleRows    []axleRow
 	formScroll  *container.Scroll // holds the form: laid out again when rows change
 	uniform     [3]*widget.Entry  // load, start, length
+	// The labels that name units: the axle table's heading and the
+	// uniform load's (showUnits).
+	axlesHeading, uniformLoad *widget.Label
+	// shown holds the numbers the form wrote, so a field left as it was
+	// reads back the train's own value, not its four figures.
+	shown map[*widget.Entry]shownNumber
 
 	quantity     *widget.Select
 	targetSelect *widget.Select
+	point        *widget.Entry // where the line of a field is, typed (pinAt)
 	pic          *movingPicture
 	readout      *widget.Label
 	status       *widget.Label
@@ -70,6 +79,13 @@ type movingWindow struct {
 	seq     uint64 // of the newest envelope asked for
 }
 
+// shownNumber is a number the form wrote: its text, and the value (SI)
+// it stands for.
+type shownNumber struct {
+	text  string
+	value float64
+}
+
 // axleRow is one row of the axle table.
 type axleRow struct {
 	load, spacing *widget.Entry
@@ -86,7 +102,8 @@ func (w *Window) showMovingLoads() {
 		w.moving.win.RequestFocus()
 		return
 	}
-	mw := &movingWindow{w: w, index: -1, reaction: -1, quantityIndex: slices.Index(moving.EnvelopeQuantities, fem.QBendingMoment)}
+	mw := &movingWindow{w: w, index: -1, reaction: -1, quantityIndex: slices.Index(moving.EnvelopeQuantities, fem.QBendingMoment),
+		shown: map[*widget.Entry]shownNumber{}}
 	mw.win = w.app.NewWindow("Stave — moving loads")
 	mw.build()
 	mw.win.SetOnClosed(func() { w.moving = nil })
@@ -101,7 +118,6 @@ func (w *Window) showMovingLoads() {
 }
 
 func (mw *movingWindow) build() {
-	u := mw.w.units
 	mw.readout = widget.NewLabel("")
 	mw.readout.Wrapping = fyne.TextWrapWord
 	mw.status = widget.NewLabel("")
@@ -123,6 +139,9 @@ func (mw *movingWindow) build() {
 	}
 	mw.uniform[0].SetPlaceHolder("none")
 	mw.axles = container.NewVBox()
+	for _, e := range append([]*widget.Entry{mw.name, mw.from, mw.to, mw.step}, mw.uniform[:]...) {
+		mw.submits(e)
+	}
 	form := container.New(layout.NewFormLayout(),
 		widget.NewLabel("Name"), mw.name,
 		widget.NewLabel("Moves"), mw.direction,
@@ -131,8 +150,10 @@ func (mw *movingWindow) build() {
 		widget.NewLabel(""), mw.offEnds,
 		widget.NewLabel("Step"), mw.step,
 	)
+	mw.axlesHeading, mw.uniformLoad = heading(""), widget.NewLabel("")
+	mw.showUnits()
 	uniform := container.New(layout.NewFormLayout(),
-		widget.NewLabel("Load ("+u.Unit(units.LineLoad).Symbol+")"), mw.uniform[0],
+		mw.uniformLoad, mw.uniform[0],
 		widget.NewLabel("Behind the front"), mw.uniform[1],
 		widget.NewLabel("Length"), mw.uniform[2],
 	)
@@ -141,7 +162,7 @@ func (mw *movingWindow) build() {
 		container.NewBorder(nil, nil, nil, container.NewHBox(
 			widget.NewButton("New", mw.newTrain), widget.NewButton("Delete", mw.deleteTrain)), mw.trainSelect),
 		form,
-		heading(fmt.Sprintf("Axles, front first (load in %s, spacing from the axle before in %s)", u.Unit(units.Force).Symbol, u.Unit(units.Position).Symbol)),
+		mw.axlesHeading,
 		mw.axles,
 		widget.NewButton("Add an axle", func() { mw.addAxleRow(moving.Axle{}); mw.rowsChanged() }),
 		heading("Uniform load moving with it"),
@@ -169,15 +190,39 @@ func (mw *movingWindow) build() {
 	wide := func(o fyne.CanvasObject, w float32) fyne.CanvasObject {
 		return container.NewGridWrap(fyne.NewSize(w, o.MinSize().Height), o)
 	}
+	mw.point = widget.NewEntry()
+	mw.point.SetPlaceHolder("under the mouse")
+	mw.point.OnSubmitted = mw.pinAt
 	top := newFlow(widget.NewLabel("Field"), wide(mw.quantity, 190), widget.NewLabel("Influence line of"), wide(mw.targetSelect, 380),
-		widget.NewButton("Worst position", mw.toWorst))
-	hint := widget.NewLabel("Drag the train along the member (or ← and → after a click or Tab on the picture); the influence line follows the mouse, a click pins it to a point (click again to let go).")
+		container.NewHBox(widget.NewLabel("at x"), wide(mw.point, 150)), widget.NewButton("Worst position", mw.toWorst))
+	hint := widget.NewLabel("Drag the train along the member (or ← and → after a click or Tab on the picture); the influence line follows the mouse, a click pins it to a point (click again to let go), or type the point's x and press Enter.")
 	hint.Wrapping = fyne.TextWrapWord
 	center := container.NewBorder(top, container.NewVBox(mw.readout, hint), nil, nil, mw.pic)
 	mw.formScroll = container.NewVScroll(left)
 	split := container.NewHSplit(mw.formScroll, center)
 	split.SetOffset(0.27)
 	mw.win.SetContent(container.NewBorder(nil, container.NewVBox(widget.NewSeparator(), mw.status, warning), nil, nil, split))
+}
+
+// showUnits names the window's units in the labels that say them.
+func (mw *movingWindow) showUnits() {
+	u := mw.w.units
+	mw.axlesHeading.SetText(fmt.Sprintf("Axles, front first (load in %s, spacing from the axle before in %s)", u.Unit(units.Force).Symbol, u.Unit(units.Position).Symbol))
+	mw.uniformLoad.SetText("Load (" + u.Unit(units.LineLoad).Symbol + ")")
+}
+
+// unitsChanged shows the train in the window's new units: the numbers of
+// the form are written again in them (a number typed and not applied is
+// dropped, as the properties of the window drop theirs), and the labels,
+// the choices and the readout name them.
+func (mw *movingWindow) unitsChanged() {
+	mw.showUnits()
+	mw.showPoint()
+	if mw.index >= 0 {
+		mw.choose(mw.index)
+		return
+	}
+	mw.modelChanged()
 }
 
 // refreshChoices lists the trains and the reactions a line may be of.
@@ -225,47 +270,71 @@ func (mw *movingWindow) supportOf(k int) int {
 func (mw *movingWindow) choose(i int) {
 	mw.index = i
 	t := mw.w.project.Trains[i]
-	u := mw.w.units
 	mw.name.SetText(t.Name)
 	mw.direction.SetSelected(t.Direction.String())
-	mw.from.SetText(formatOrEmpty(u, units.Position, t.From, false))
-	mw.to.SetText(formatOrEmpty(u, units.Position, t.To, true))
+	mw.setNumber(mw.from, units.Position, t.From, false)
+	mw.setNumber(mw.to, units.Position, t.To, true)
 	mw.offEnds.SetChecked(t.OffEnds)
-	mw.step.SetText(formatOrEmpty(u, units.Position, t.Step, true))
-	mw.axles.RemoveAll()
-	mw.axleRows = nil
-	for _, a := range t.Axles {
-		mw.addAxleRow(a)
-	}
-	mw.rowsChanged()
-	mw.uniform[0].SetText(formatOrEmpty(u, units.LineLoad, t.Uniform.Load, true))
-	mw.uniform[1].SetText(formatOrEmpty(u, units.Position, t.Uniform.Start, t.Uniform.Load == 0))
-	mw.uniform[2].SetText(formatOrEmpty(u, units.Position, t.Uniform.Length, t.Uniform.Load == 0))
+	mw.setNumber(mw.step, units.Position, t.Step, true)
+	mw.setAxleRows(t.Axles)
+	mw.setNumber(mw.uniform[0], units.LineLoad, t.Uniform.Load, true)
+	mw.setNumber(mw.uniform[1], units.Position, t.Uniform.Start, t.Uniform.Load == 0)
+	mw.setNumber(mw.uniform[2], units.Position, t.Uniform.Length, t.Uniform.Load == 0)
 	mw.modelChanged()
 }
 
-// formatOrEmpty writes v in display units without the unit symbol, or
-// nothing for a zero that means "not given" (empty).
-func formatOrEmpty(u units.System, k units.Kind, v float64, empty bool) string {
-	if v == 0 && empty {
-		return ""
+// setNumber writes v, of kind k, in e in display units without the unit
+// symbol, or nothing for a zero that means "not given" (empty), and keeps
+// it for number.
+func (mw *movingWindow) setNumber(e *widget.Entry, k units.Kind, v float64, empty bool) {
+	text := ""
+	if v != 0 || !empty {
+		text = units.FormatNumber(mw.w.units.ToDisplay(k, v))
 	}
-	return units.FormatNumber(u.ToDisplay(k, v))
+	mw.shown[e] = shownNumber{text, v}
+	e.SetText(text)
+}
+
+// number reads e as a value of kind k, SI: the value setNumber wrote while
+// its text is as written, else what is typed there (0 for nothing, when
+// optional).
+func (mw *movingWindow) number(e *widget.Entry, k units.Kind, optional bool) (float64, error) {
+	empty := strings.TrimSpace(e.Text) == ""
+	if s, ok := mw.shown[e]; ok && e.Text == s.text && !empty {
+		return s.value, nil
+	}
+	if optional && empty {
+		return 0, nil
+	}
+	return mw.w.units.Parse(k, e.Text) // says what an empty field lacks
+}
+
+// setAxleRows fills the axle table with a row per axle.
+func (mw *movingWindow) setAxleRows(axles []moving.Axle) {
+	for _, r := range mw.axleRows {
+		delete(mw.shown, r.load)
+		delete(mw.shown, r.spacing)
+	}
+	mw.axles.RemoveAll()
+	mw.axleRows = nil
+	for _, a := range axles {
+		mw.addAxleRow(a)
+	}
+	mw.rowsChanged()
 }
 
 func (mw *movingWindow) addAxleRow(a moving.Axle) {
-	u := mw.w.units
 	r := axleRow{load: widget.NewEntry(), spacing: widget.NewEntry()}
+	mw.submits(r.load)
+	mw.submits(r.spacing)
 	r.load.SetPlaceHolder("load")
 	r.spacing.SetPlaceHolder("spacing")
-	if a.Load != 0 {
-		r.load.SetText(formatOrEmpty(u, units.Force, a.Load, true))
-	}
+	mw.setNumber(r.load, units.Force, a.Load, true)
 	if len(mw.axleRows) == 0 {
 		r.spacing.SetPlaceHolder("(the front)")
 		r.spacing.Disable()
 	} else {
-		r.spacing.SetText(formatOrEmpty(u, units.Position, a.Spacing, true))
+		mw.setNumber(r.spacing, units.Position, a.Spacing, true)
 	}
 	remove := widget.NewButton("×", nil)
 	r.row = container.NewBorder(nil, nil, widget.NewLabel(fmt.Sprintf("%d", len(mw.axleRows)+1)), remove, container.NewGridWithColumns(2, r.load, r.spacing))
@@ -274,15 +343,11 @@ func (mw *movingWindow) addAxleRow(a moving.Axle) {
 		if k < 0 {
 			return
 		}
+		delete(mw.shown, r.load)
+		delete(mw.shown, r.spacing)
+		mw.axleRows = slices.Delete(mw.axleRows, k, k+1)
 		axles, _ := mw.readAxles()
-		mw.axles.RemoveAll()
-		mw.axleRows = nil
-		for j, a := range axles {
-			if j != k {
-				mw.addAxleRow(a)
-			}
-		}
-		mw.rowsChanged()
+		mw.setAxleRows(axles)
 	}
 	mw.axleRows = append(mw.axleRows, r)
 	mw.axles.Add(r.row)
@@ -297,9 +362,14 @@ func (mw *movingWindow) rowsChanged() {
 	mw.formScroll.Refresh()
 }
 
+// submits makes Enter in e apply the form, as Enter does in the
+// window's properties: at 1280 × 720 the Apply button is below the fold.
+func (mw *movingWindow) submits(e *widget.Entry) {
+	e.OnSubmitted = func(string) { mw.apply() }
+}
+
 // readAxles reads the axle table; a row left empty is skipped.
 func (mw *movingWindow) readAxles() ([]moving.Axle, error) {
-	u := mw.w.units
 	var out []moving.Axle
 	for i, r := range mw.axleRows {
 		if strings.TrimSpace(r.load.Text) == "" && strings.TrimSpace(r.spacing.Text) == "" {
@@ -307,11 +377,11 @@ func (mw *movingWindow) readAxles() ([]moving.Axle, error) {
 		}
 		var a moving.Axle
 		var err error
-		if a.Load, err = u.Parse(units.Force, r.load.Text); err != nil {
+		if a.Load, err = mw.number(r.load, units.Force, false); err != nil {
 			return out, fmt.Errorf("axle %d, load: %v", i+1, err)
 		}
 		if len(out) > 0 {
-			if a.Spacing, err = u.Parse(units.Position, r.spacing.Text); err != nil {
+			if a.Spacing, err = mw.number(r.spacing, units.Position, false); err != nil {
 				return out, fmt.Errorf("axle %d, spacing: %v", i+1, err)
 			}
 		}
@@ -322,16 +392,12 @@ func (mw *movingWindow) readAxles() ([]moving.Axle, error) {
 
 // readTrain reads the form into a train.
 func (mw *movingWindow) readTrain() (moving.Train, error) {
-	u := mw.w.units
 	t := moving.Train{Name: strings.TrimSpace(mw.name.Text)}
 	d, _ := moving.ParseDirection(mw.direction.Selected)
 	t.Direction = d
 	t.OffEnds = mw.offEnds.Checked
 	read := func(e *widget.Entry, k units.Kind, what string) (float64, error) {
-		if strings.TrimSpace(e.Text) == "" {
-			return 0, nil
-		}
-		v, err := u.Parse(k, e.Text)
+		v, err := mw.number(e, k, true)
 		if err != nil {
 			return 0, fmt.Errorf("%s: %v", what, err)
 		}
@@ -411,13 +477,18 @@ func (mw *movingWindow) deleteTrain() {
 // background, the shown train's envelope.
 func (mw *movingWindow) modelChanged() {
 	mw.refreshChoices()
-	m := mw.w.project.Model.Clone()
 	mw.member, mw.infl, mw.env = nil, nil, nil
-	p, err := fem.Prepare(&m)
+	// The member as files and the command line have it, every load in
+	// its case; one the window still lets be refused (a case not yet
+	// given loads) has the same lines without its loads.
+	p := mw.w.canonical()
+	member, infl, err := report.InfluenceOf(&p)
+	if err != nil {
+		p.Model = moving.Unloaded(&p.Model)
+		member, infl, err = report.InfluenceOf(&p)
+	}
 	if err == nil {
-		mw.member = p
-		mw.mesh = p.Mesh()
-		mw.infl, err = moving.New(p)
+		mw.member, mw.mesh, mw.infl = member, member.Mesh(), infl
 	}
 	if err != nil {
 		mw.status.SetText("no influence lines: " + err.Error())
@@ -430,7 +501,7 @@ func (mw *movingWindow) modelChanged() {
 		return
 	}
 	t := mw.w.project.Trains[mw.index]
-	if err := t.Check(m.Length(), mw.index); err != nil {
+	if err := t.Check(p.Model.Length(), mw.index); err != nil {
 		mw.status.SetText(err.Error())
 		return
 	}
@@ -462,6 +533,42 @@ func (mw *movingWindow) envelopeReady(seq uint64, env *moving.Envelope, err erro
 		mw.w.project.Trains[mw.index].Label(mw.index), env.Positions, mw.w.units.Format(units.Position, env.Step)))
 	mw.showLine()
 	mw.toWorst()
+}
+
+// pinAt pins the line of the field at the x typed, in display units or
+// with a unit, and shows it; nothing typed lets it follow the mouse again.
+// A point off the member is refused with the reason.
+func (mw *movingWindow) pinAt(text string) {
+	if strings.TrimSpace(text) == "" {
+		mw.pinned = false
+		mw.showLine()
+		return
+	}
+	u := mw.w.units
+	x, err := u.Parse(units.Position, text)
+	if L := mw.w.project.Model.Length(); err == nil && (x < 0 || x > L) {
+		err = fmt.Errorf("x = %s is off the member, which runs from 0 to %s", u.Format(units.Position, x), u.Format(units.Position, L))
+	}
+	if err != nil {
+		mw.status.SetText("influence line at x: " + err.Error())
+		return
+	}
+	if mw.reaction >= 0 {
+		mw.targetSelect.SetSelectedIndex(0) // the field's line, not a reaction's
+	}
+	mw.pinned, mw.pointX = true, x
+	mw.showPoint()
+	mw.showLine()
+}
+
+// showPoint writes the pinned point in its field, or nothing while the
+// line follows the mouse.
+func (mw *movingWindow) showPoint() {
+	text := ""
+	if mw.pinned {
+		text = units.FormatNumber(mw.w.units.ToDisplay(units.Position, mw.pointX))
+	}
+	mw.point.SetText(text)
 }
 
 // target is the influence line's target now.
@@ -594,6 +701,7 @@ func targetUnit(t moving.Target) units.Kind {
 type movingPicture struct {
 	widget.BaseWidget
 	mw        *movingWindow
+	frame     *fynecanvas.Rectangle // newFocusFrame
 	dragStart *moving.Placement
 	dragX     float32
 }
@@ -606,7 +714,7 @@ var (
 )
 
 func newMovingPicture(mw *movingWindow) *movingPicture {
-	p := &movingPicture{mw: mw}
+	p := &movingPicture{mw: mw, frame: newFocusFrame()}
 	p.ExtendBaseWidget(p)
 	return p
 }
@@ -635,11 +743,11 @@ func (p *movingPicture) Dragged(ev *fyne.DragEvent) {
 func (p *movingPicture) DragEnd() { p.dragStart = nil }
 
 // FocusGained is part of fyne.Focusable: the picture takes the focus
-// by Tab or a click, and then ← and → move the train.
-func (p *movingPicture) FocusGained() {}
+// by Tab or a click, and then ← and → move the train; its frame shows it.
+func (p *movingPicture) FocusGained() { showFocus(p.frame, true) }
 
 // FocusLost is part of fyne.Focusable.
-func (p *movingPicture) FocusLost() {}
+func (p *movingPicture) FocusLost() { showFocus(p.frame, false) }
 
 // TypedRune is part of fyne.Focusable.
 func (p *movingPicture) TypedRune(rune) {}
@@ -669,6 +777,7 @@ func (p *movingPicture) Tapped(ev *fyne.PointEvent) {
 	} else {
 		mw.pinned, mw.pointX = true, p.modelX(ev.Position.X)
 	}
+	mw.showPoint()
 	mw.showLine()
 }
 
@@ -696,7 +805,10 @@ type movingRenderer struct {
 	objects []fyne.CanvasObject
 }
 
-func (r *movingRenderer) Layout(fyne.Size) { r.Refresh() }
+func (r *movingRenderer) Layout(size fyne.Size) {
+	r.p.frame.Resize(size)
+	r.Refresh()
+}
 
 func (r *movingRenderer) MinSize() fyne.Size { return r.p.MinSize() }
 
@@ -706,7 +818,7 @@ func (r *movingRenderer) Refresh() {
 		return
 	}
 	s, _ := canvas.BuildMoving(r.p.mw.input(), size.Width, size.Height)
-	r.objects = drawScene(s)
+	r.objects = append(drawScene(s), r.p.frame)
 	for _, o := range r.objects {
 		o.Refresh()
 	}

@@ -1,15 +1,22 @@
 package app
 
 import (
+	"image/color"
 	"math"
 	"path/filepath"
+	"reflect"
 	"slices"
+	"strings"
 	"testing"
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/test"
+	"fyne.io/fyne/v2/theme"
+	"fyne.io/fyne/v2/widget"
 
+	"stave/canvas/report"
 	"stave/fem/moving"
+	"stave/fem/units"
 	"stave/storage"
 )
 
@@ -93,5 +100,209 @@ func TestMovingWindowShowsEveryAxle(t *testing.T) {
 	}
 	if got, need := mw.axles.Size().Height, mw.axles.MinSize().Height; got < need-0.5 {
 		t.Errorf("the axle table is %g high, its 3 rows need %g", got, need)
+	}
+}
+
+// The train's form works from the keyboard: Enter in any of its fields
+// applies it, as Enter does in the window's properties, since at 1280 ×
+// 720 the Apply button lies below the form's fold; and the picture shows
+// a frame while it has the focus (← and → then move the train). Enter
+// did nothing, and the picture gave no sign of focus.
+func TestMovingWindowByKeyboard(t *testing.T) {
+	w, q, mw := runwayWindow(t)
+	fields := map[string]*widget.Entry{"spacing": mw.axleRows[1].spacing, "name": mw.name, "step": mw.step}
+	for what, e := range fields {
+		want := w.project.Trains[0]
+		switch what {
+		case "spacing":
+			e.SetText("2.8")
+			want.Axles = slices.Clone(want.Axles)
+			want.Axles[1].Spacing = 2.8
+		case "name":
+			e.SetText("carriage")
+			want.Name = "carriage"
+		case "step":
+			e.SetText("0.1")
+			want.Step = 0.1
+		}
+		e.TypedKey(&fyne.KeyEvent{Name: fyne.KeyReturn})
+		if got := w.project.Trains[0]; !reflect.DeepEqual(got, want) {
+			t.Errorf("Enter in the %s field: the train is %+v, want %+v", what, got, want)
+		}
+	}
+	q.waitFor(t, "the envelope", func() bool { return mw.env != nil })
+	c := mw.win.Canvas()
+	c.Focus(mw.pic)
+	if mw.pic.frame.StrokeColor != theme.Color(theme.ColorNamePrimary) || !slices.Contains(test.WidgetRenderer(mw.pic).Objects(), fyne.CanvasObject(mw.pic.frame)) {
+		t.Errorf("the picture in focus has a frame of %v, drawn %v", mw.pic.frame.StrokeColor, slices.Contains(test.WidgetRenderer(mw.pic).Objects(), fyne.CanvasObject(mw.pic.frame)))
+	}
+	before := mw.at
+	mw.pic.TypedKey(&fyne.KeyEvent{Name: fyne.KeyRight})
+	if mw.at == before {
+		t.Error("→ left the train where it was")
+	}
+	c.Unfocus()
+	if mw.pic.frame.StrokeColor != color.Transparent {
+		t.Errorf("the picture out of focus has a frame of %v", mw.pic.frame.StrokeColor)
+	}
+}
+
+// The train's form follows the window's units: switched to US units with
+// the moving loads window open, its fields and headings read kip and ft,
+// and applying the form leaves the train as it was. The form kept "42.00"
+// under a heading of kN, and Apply read it as 42 kip (186.8 kN).
+func TestMovingWindowFollowsTheUnits(t *testing.T) {
+	w, q, mw := runwayWindow(t)
+	// The form writes four figures; applying it untouched keeps the
+	// train's own numbers, not those figures.
+	w.project.Trains[0].Axles[0].Load = 42345
+	w.project.Trains[0].Step = 0.05004
+	mw.choose(0)
+	want := moving.CloneTrains(w.project.Trains)
+	mw.apply()
+	if got := w.project.Trains; !reflect.DeepEqual(got, want) {
+		t.Errorf("applying the form untouched made the train %+v, want %+v", got[0], want[0])
+	}
+	w.project.Trains[0].Axles[0].Load, w.project.Trains[0].Step = 42e3, 0.05
+	mw.choose(0)
+	want = moving.CloneTrains(w.project.Trains)
+	w.setUnits(units.USCustomary)
+	finished(t, w, q)
+	// 42 kN is 42000 / 4448.2216152605 kip = 9.442 kip (NIST SP 811,
+	// Appendix B: 1 lbf = 4.4482216152605 N); 3.2 m is 10.50 ft.
+	if got := mw.axleRows[0].load.Text; got != "9.442" {
+		t.Errorf("the first axle's load reads %q in US units, want 9.442 (kip)", got)
+	}
+	if got := mw.axleRows[1].spacing.Text; got != "10.50" {
+		t.Errorf("the second axle's spacing reads %q in US units, want 10.50 (ft)", got)
+	}
+	if !strings.Contains(mw.axlesHeading.Text, "kip") || strings.Contains(mw.axlesHeading.Text, "kN") {
+		t.Errorf("the axles' heading says %q in US units", mw.axlesHeading.Text)
+	}
+	mw.apply()
+	if got := w.project.Trains; !reflect.DeepEqual(got[0].Axles, want[0].Axles) {
+		t.Errorf("applying the form in US units made the axles %+v, want %+v", got[0].Axles, want[0].Axles)
+	}
+}
+
+// The × of an axle row removes that row, even with a row above it left
+// empty: the table was read without the empty row, and the row's place in
+// the table then named the axle after it (here none: nothing was removed).
+func TestMovingWindowRemovesTheAxleClicked(t *testing.T) {
+	_, q, mw := runwayWindow(t)
+	mw.choose(1)
+	q.waitFor(t, "the cart's envelope", func() bool { return mw.env != nil && mw.env.Train.Name == "maintenance cart" })
+	mw.axleRows[0].load.SetText("")
+	remove := func(r axleRow) *widget.Button {
+		for _, o := range test.LaidOutObjects(r.row) {
+			if b, ok := o.(*widget.Button); ok && b.Text == "×" {
+				return b
+			}
+		}
+		t.Fatal("no × in the axle row")
+		return nil
+	}
+	test.Tap(remove(mw.axleRows[2]))
+	axles, err := mw.readAxles()
+	if err != nil || len(axles) != 1 || axles[0].Load != 9000 {
+		t.Errorf("after removing the third of the cart's axles (the first left empty): %+v, %v; want the second alone, 9 kN", axles, err)
+	}
+}
+
+// The moving loads window works on the member as the command line does:
+// on a model with load cases (it prepared the window's model with the
+// loads of the case edited lifted out of it, and refused it: 'load case
+// "both spans" is empty'), and on a member whose only loads are its trains
+// with the mesh left to Stave (it took the automatic mesh of one element a
+// span, so the train stood at 3 positions 4.4 m apart, and its largest
+// moment at x = 2.1 m read 32.7 kN·m). The train's largest moment at a
+// point is the influence line's closed form (Müller-
+// Breslau; two equal spans L = 6 m, M_B = −P·ξ(L² − ξ²)/(4L²) from the
+// three-moment equation, Timoshenko & Young, from memory): 56.57 kN·m at
+// x = 2.1 m, the two 42 kN axles at 2.1 and 5.3 m.
+func TestMovingWindowWorksAsTheCommandLine(t *testing.T) {
+	cased, err := storage.Load(filepath.Join("..", "testdata", "two_span_cases.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	cased.Trains = []moving.Train{{Name: "pair", Axles: []moving.Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}}}
+	bare, err := storage.Load(filepath.Join("..", "testdata", "moving", "runway.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	bare.Model.Gravity, bare.Model.Mesh.Elements = [2]float64{}, 0
+	bare.Trains = bare.Trains[:1]
+	bare.Trains[0].Step = 0
+	for name, p := range map[string]*storage.Project{"two spans with cases": cased, "runway with no loads": bare} {
+		w, q := newTestWindow(t, p)
+		w.showMovingLoads()
+		mw := w.moving
+		q.waitFor(t, "the envelope of "+name, func() bool { return mw.env != nil || mw.infl == nil })
+		if mw.infl == nil {
+			t.Errorf("%s: no influence lines: %s", name, mw.status.Text)
+			continue
+		}
+		want := canonicalInfluence(t, w)
+		if mw.env.Step != want.Step || mw.env.Positions != want.Positions {
+			t.Errorf("%s: the train stands at %d positions %g m apart, the command line's at %d, %g m apart", name, mw.env.Positions, mw.env.Step, want.Positions, want.Step)
+		}
+		if name == "runway with no loads" {
+			// With a step that puts the rear axle on x = 2.1 m.
+			w.project.Trains[0].Step = 0.1
+			mw.modelChanged()
+			q.waitFor(t, "the envelope by steps of 0.1 m", func() bool { return mw.env != nil })
+			mw.pinned, mw.pointX = true, 2.1
+			mw.showLine()
+			if hi := mw.worst[0].Value; math.Abs(hi-56.568e3) > 0.01e3 {
+				t.Errorf("%s: the train's largest moment at x = 2.1 m is %g N·m, want 56.57 kN·m", name, hi)
+			}
+		}
+	}
+}
+
+// canonicalInfluence is the first train's envelope as the command line
+// works it out on the window's project.
+func canonicalInfluence(t *testing.T, w *Window) *moving.Envelope {
+	t.Helper()
+	p := w.canonical()
+	rs, err := report.TrainEnvelopes(&p)
+	if err != nil || len(rs) == 0 || rs[0].Err != nil {
+		t.Fatalf("the command line's train envelopes: %v %+v", err, rs)
+	}
+	return rs[0].Envelope
+}
+
+// The point the influence line is of can be typed, so the line of a field
+// is reached by keyboard too (the mouse alone set it: under it, or pinned
+// by a click). At x = 3 m of the runway's two 6 m spans, the end
+// carriage's largest moment is 49.19 kN·m, its axles at 3.0 and 6.2 m
+// (M = 42·(3·3/6) + M_B·3/6 with M_B = −Σ P·ξ(L² − ξ²)/(4L²) over the two
+// spans, three-moment equation, Timoshenko & Young, from memory); a point
+// off the member is refused with the reason.
+func TestMovingWindowTakesATypedPoint(t *testing.T) {
+	_, _, mw := runwayWindow(t)
+	mw.point.SetText("3 m")
+	mw.point.TypedKey(&fyne.KeyEvent{Name: fyne.KeyReturn})
+	if mw.line == nil || mw.line.Target.X != 3 || !mw.pinned {
+		t.Fatalf("after typing 3 m the line is of %+v, pinned %v", mw.line, mw.pinned)
+	}
+	if hi := mw.worst[0].Value; math.Abs(hi-49.19e3) > 0.01e3 {
+		t.Errorf("the largest moment at x = 3 m is %g N·m, want 49.19 kN·m", hi)
+	}
+	mw.point.SetText("13 m")
+	mw.point.TypedKey(&fyne.KeyEvent{Name: fyne.KeyReturn})
+	if mw.line.Target.X != 3 || !strings.Contains(mw.status.Text, "12") {
+		t.Errorf("a point off the member: the line is at %g m, the status says %q", mw.line.Target.X, mw.status.Text)
+	}
+	// A click lets the point go, and the field empties; another pins it
+	// where it is, and the field shows it (the picture's left edge: x = 0).
+	mw.win.Resize(fyne.NewSize(1280, 720))
+	test.Tap(mw.pic)
+	if mw.pinned || mw.point.Text != "" {
+		t.Errorf("after a click let the point go: pinned %v, the field reads %q", mw.pinned, mw.point.Text)
+	}
+	test.Tap(mw.pic)
+	if !mw.pinned || mw.point.Text != "0" {
+		t.Errorf("after a click pinned the point at the left end: pinned %v, the field reads %q", mw.pinned, mw.point.Text)
 	}
 }

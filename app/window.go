@@ -369,6 +369,12 @@ func (w *Window) sceneInput() canvas.Input {
 		in.Problem, in.Unreliable = "", false
 	}
 	in.Selected, in.HoverX, in.Hovering, in.Highlight = w.selected, w.draw.hoverX, w.draw.hovering, w.highlight
+	if m := &w.project.Model; len(m.Cases) > 0 {
+		in.LoadsOf = analysis.Show{Kind: analysis.ShowCase, Index: w.editCase}.Title(m)
+		if a := w.result; a != nil && a.Cases != nil {
+			in.Showing = a.Cases.Show.Title(m)
+		}
+	}
 	in.Cache, in.Handles = &w.draw.cache, true
 	return in
 }

@@ -141,7 +141,11 @@ func (b *builder) strip(sd stripData) {
 	title := capitalized(quantityWords(d.quantity)) + " [" + b.u.Unit(unit).Symbol + "]"
 	header := []legendItem{{text: title, size: titleSize, colour: d.colour, bold: true}}
 	if sd.env != nil {
-		header = append(header, legendItem{text: "envelope of the combinations, upper and lower curve", size: smallSize, colour: inkColour})
+		text := "envelope of the combinations, upper and lower curve"
+		if b.in.Envelope.TrainsLeftOut {
+			text = "envelope of the combinations' cases (trains left out), upper and lower curve"
+		}
+		header = append(header, legendItem{text: text, size: smallSize, colour: inkColour})
 	}
 	if fe != nil {
 		header = append(header, b.stripLegend(d, ex != nil)...)

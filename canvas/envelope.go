@@ -18,6 +18,10 @@ type Envelope struct {
 	// with their combinations; nil labels the sampled extremes alone.
 	Result *fem.Envelope
 	Names  []string // the combinations', as Result's Combination indices count them
+	// TrainsLeftOut says a combination takes moving load trains, which
+	// the envelope leaves out (it is of each combination's cases alone):
+	// the strips say so.
+	TrainsLeftOut bool
 }
 
 // envelopeStrip is the envelope of one strip's quantity as curves.

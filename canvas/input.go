@@ -54,6 +54,13 @@ type Input struct {
 	// reactions, which must be the first combination's (Names[0]), and
 	// says whose they are.
 	Envelope *Envelope
+	// Showing names whose deflection and reactions the sketch draws
+	// ("combination ULS 1"), and LoadsOf whose loads, when the model has
+	// cases: the window draws the loads of the case it edits beside the
+	// results of what it shows. When the two differ the sketch says whose
+	// each is. Under an envelope the results are the first combination's,
+	// whatever Showing says.
+	Showing, LoadsOf string
 }
 
 // Mark is one marked check.

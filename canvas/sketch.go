@@ -12,6 +12,29 @@ import (
 	"stave/fem/units"
 )
 
+// whose says whose deflection and reactions the sketch draws, when that
+// is not plain: under an envelope (its strips show every combination, the
+// sketch the first's), and when they are not of the loads drawn. "" when
+// the sketch shows the results of the loads it draws.
+func (b *builder) whose() string {
+	results := b.in.Showing
+	env := b.in.Envelope
+	if env != nil && len(env.Names) > 0 {
+		results = "combination " + env.Names[0]
+	}
+	if b.in.Solution == nil || results == "" {
+		return ""
+	}
+	text := "deflection and reactions: " + results
+	switch {
+	case b.in.LoadsOf != "" && b.in.LoadsOf != results:
+		return "loads drawn: " + b.in.LoadsOf + "; " + text
+	case env != nil:
+		return text
+	}
+	return ""
+}
+
 // sketch draws the top band: member, supports, loads, deformed shape,
 // dimensions, scale bar and the problem text.
 func (b *builder) sketch(lay layoutBands) {
@@ -39,11 +62,8 @@ func (b *builder) sketch(lay layoutBands) {
 	if b.in.Dimensions {
 		b.scaleBar(lay.top)
 	}
-	if env := b.in.Envelope; env != nil && b.in.Solution != nil && len(env.Names) > 0 {
-		// The strips show the envelope, the sketch one combination's
-		// deflection and reactions (the first's): it says whose.
-		b.place(text1("deflection and reactions: combination "+env.Names[0], smallSize, inkColour, false,
-			labelSpot{8, lay.top + 26 + TextHeight(smallSize), 0, 0}))
+	if whose := b.whose(); whose != "" {
+		b.place(text1(whose, smallSize, inkColour, false, labelSpot{8, lay.top + 26 + TextHeight(smallSize), 0, 0}))
 	}
 	var deflected *deflectedShape
 	if b.in.Overlays.DeformedShape && b.in.Solution != nil {

@@ -512,11 +512,12 @@ func envelopeInput(a *analysis.Analysis) *canvas.Envelope {
 	if c == nil || c.Show.Kind != analysis.ShowEnvelope || a.Solution == nil {
 		return nil
 	}
-	names := make([]string, len(c.Combinations))
+	env := &canvas.Envelope{Solutions: c.Solutions, Result: c.Envelope, Names: make([]string, len(c.Combinations))}
 	for k, cb := range c.Combinations {
-		names[k] = cb.Name
+		env.Names[k] = cb.Name
+		env.TrainsLeftOut = env.TrainsLeftOut || len(cb.Trains) > 0
 	}
-	return &canvas.Envelope{Solutions: c.Solutions, Result: c.Envelope, Names: names}
+	return env
 }
 
 // sheetCaseLines are the calculation sheet's lines on the cases of src's

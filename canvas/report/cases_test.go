@@ -11,6 +11,7 @@ import (
 
 	"stave/fem"
 	"stave/fem/analysis"
+	"stave/fem/moving"
 	"stave/fem/units"
 	"stave/storage"
 )
@@ -216,4 +217,35 @@ func TestCSVNamesWhatItTabulates(t *testing.T) {
 			}
 		})
 	}
+}
+
+// The drawn envelope takes each combination's cases alone, without the
+// moving load trains a combination takes (format.md, combinations): the
+// drawing says so, or its extremes read as the combination's. Two spans
+// of 4 m: both loaded, −wL²/8 = −20 kN·m over the middle support, drawn as
+// the envelope's least while the combination with two 42 kN axles there
+// reaches −52.26 kN·m (stave solve).
+func TestEnvelopeSaysItLeavesTheTrainsOut(t *testing.T) {
+	p, err := storage.Load("../../testdata/two_span_cases.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	plain := envelopeSVG(t, p)
+	p.Trains = []moving.Train{{Name: "pair", Axles: []moving.Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}}}
+	p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 0, Factor: 1}}
+	with := envelopeSVG(t, p)
+	const note = "trains left out"
+	if strings.Contains(plain, note) || !strings.Contains(with, note) {
+		t.Errorf("the envelope says %q: without trains %v, with a combination taking one %v", note, strings.Contains(plain, note), strings.Contains(with, note))
+	}
+}
+
+// envelopeSVG is p's envelope drawn as SVG.
+func envelopeSVG(t *testing.T, p *storage.Project) string {
+	t.Helper()
+	var b bytes.Buffer
+	if _, err := Export(context.Background(), &b, p, "svg", Options{Show: analysis.Show{Kind: analysis.ShowEnvelope}}); err != nil {
+		t.Fatal(err)
+	}
+	return b.String()
 }

@@ -53,7 +53,7 @@ type InfluenceSample struct {
 // worst positions of each of p's trains for it (and their envelopes when
 // asked).
 func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
-	member, in, err := influenceOf(p)
+	member, in, err := InfluenceOf(p)
 	if err != nil {
 		return nil, err
 	}

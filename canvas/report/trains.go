@@ -375,7 +375,7 @@ func onRun(t *moving.Train, p moving.Placement, L float64) bool {
 // checked by finite elements at its governing position: what the solve
 // command can add to its JSON as "trains" (TrainsJSON).
 func TrainEnvelopes(p *storage.Project) ([]TrainResult, error) {
-	member, in, err := influenceOf(p)
+	member, in, err := InfluenceOf(p)
 	if err != nil {
 		return nil, err
 	}
@@ -400,8 +400,9 @@ func solveTrains(p *storage.Project) []TrainResult {
 	return rs
 }
 
-// influenceOf prepares the member of p and sets up its influence lines.
-func influenceOf(p *storage.Project) (*fem.Member, *moving.Influence, error) {
+// InfluenceOf prepares the member of p and sets up its influence lines:
+// the member every command and the window's moving loads work on.
+func InfluenceOf(p *storage.Project) (*fem.Member, *moving.Influence, error) {
 	member, err := fem.Prepare(&p.Model)
 	if err != nil {
 		return nil, nil, err
