@@ -527,7 +527,7 @@ const extremeTie = 1e-12
 // so that of two equal peaks the first along the member is named
 // everywhere, in the tables, the envelopes and the drawings.
 func Beyond(a, b float64) bool {
-	return a > b && !(a-b <= extremeTie*math.Min(math.Abs(a), math.Abs(b)))
+	return a > b && !(a-b <= extremeTie*min(math.Abs(a), math.Abs(b)))
 }
 
 // BeyondField is Beyond where a and b are values of one field whose

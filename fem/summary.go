@@ -196,10 +196,18 @@ func (x *extremes) Visit(v *ElementView) {
 	x.take(QCombinedStress, lo, hi)
 }
 
-// ends takes the values a at x0 and b at x1 of q, the first winning a tie.
+// ends takes the values a at x0 and b at x1 of q, the first winning a tie:
+// take of each end in turn.
 func (x *extremes) ends(q Quantity, x0, a, x1, b float64) {
-	x.take(q, Point{x0, a}, Point{x0, a})
-	x.take(q, Point{x1, b}, Point{x1, b})
+	lo, hi, scale := &x.lo[q], &x.hi[q], x.scale[q]
+	for _, p := range [2]Point{{x0, a}, {x1, b}} {
+		if p.Value < lo.Value && BeyondField(lo.Value, p.Value, scale) {
+			*lo = p
+		}
+		if p.Value > hi.Value && BeyondField(p.Value, hi.Value, scale) {
+			*hi = p
+		}
+	}
 }
 
 // insideBeyond reports whether a value inside fe of polynomial quantity q,
@@ -225,12 +233,14 @@ func (x *extremes) insideBeyond(q Quantity, fe *Interval, a, b float64) bool {
 
 // take keeps lo and hi where they are beyond the extremes of q so far by
 // more than a tie (Beyond): of equal peaks the first along the member.
+// Beyond is asked only past the plain comparison it starts with, which
+// settles nearly every value of a walk at the cost of one comparison.
 func (x *extremes) take(q Quantity, lo, hi Point) {
-	if BeyondField(x.lo[q].Value, lo.Value, x.scale[q]) {
-		x.lo[q] = lo
+	if l := &x.lo[q]; lo.Value < l.Value && BeyondField(l.Value, lo.Value, x.scale[q]) {
+		*l = lo
 	}
-	if BeyondField(hi.Value, x.hi[q].Value, x.scale[q]) {
-		x.hi[q] = hi
+	if h := &x.hi[q]; hi.Value > h.Value && BeyondField(hi.Value, h.Value, x.scale[q]) {
+		*h = hi
 	}
 }
 
