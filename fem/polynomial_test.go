@@ -289,3 +289,37 @@ func TestPolynomialRootsAndRangeAreScaleFree(t *testing.T) {
 		}
 	}
 }
+
+// scaledToOne divides by a power of two; by multiplication where 2^−e is a
+// normal number, by math.Ldexp elsewhere. Both give the exact quotient
+// correctly rounded (IEEE 754: a product by a power of two is exact unless
+// it leaves the normal numbers, then rounded once), so the results must
+// equal Ldexp's bit for bit: over coefficients from 1e−320 to 1e308, with
+// small ones beside large ones (subnormal results) and signs mixed.
+func TestScaledToOneMatchesLdexp(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(5, 6))
+	value := func() float64 {
+		v := math.Ldexp(0.5+0.5*rnd.Float64(), rnd.IntN(2100)-1070)
+		if rnd.IntN(2) == 0 {
+			v = -v
+		}
+		if rnd.IntN(10) == 0 {
+			v = 0
+		}
+		return v
+	}
+	for range 200_000 {
+		a, b, c := value(), value(), value()
+		largest := max(math.Abs(a), math.Abs(b), math.Abs(c))
+		if largest == 0 {
+			continue
+		}
+		_, e := math.Frexp(largest)
+		ga, gb, gc := scaledToOne(a, b, c)
+		for i, pair := range [][2]float64{{ga, math.Ldexp(a, -e)}, {gb, math.Ldexp(b, -e)}, {gc, math.Ldexp(c, -e)}} {
+			if math.Float64bits(pair[0]) != math.Float64bits(pair[1]) {
+				t.Fatalf("scaledToOne(%g, %g, %g): coefficient %d is %g, Ldexp gives %g", a, b, c, i, pair[0], pair[1])
+			}
+		}
+	}
+}

@@ -197,16 +197,12 @@ func (x *extremes) Visit(v *ElementView) {
 }
 
 // ends takes the values a at x0 and b at x1 of q, the first winning a tie:
-// take of each end in turn.
+// take of each end in turn, where either lies outside the extremes so far.
 func (x *extremes) ends(q Quantity, x0, a, x1, b float64) {
-	lo, hi, scale := &x.lo[q], &x.hi[q], x.scale[q]
-	for _, p := range [2]Point{{x0, a}, {x1, b}} {
-		if p.Value < lo.Value && BeyondField(lo.Value, p.Value, scale) {
-			*lo = p
-		}
-		if p.Value > hi.Value && BeyondField(p.Value, hi.Value, scale) {
-			*hi = p
-		}
+	lo, hi := &x.lo[q], &x.hi[q]
+	if a < lo.Value || a > hi.Value || b < lo.Value || b > hi.Value {
+		x.take(q, Point{x0, a}, Point{x0, a})
+		x.take(q, Point{x1, b}, Point{x1, b})
 	}
 }
 
