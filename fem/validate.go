@@ -62,7 +62,8 @@ const (
 	// supports, point loads or load points; most for supports, whose
 	// validation sorts their places; 2,620 B under the race detector,
 	// 4 December), Summarize with the exact
-	// solution at most 1,049 B (from 125 to 250 key points), and the banded
+	// solution at most 1,180 B (from 125 to 250 key points; most for
+	// supports; 4 December, evening), and the banded
 	// exact solution at most 2,952 B (from 1,000 to 2,000; most for supports,
 	// whose reactions add unknowns). TestMemoryPerStage measures all three.
 	solveBytesPerKeyPoint   = 3000
