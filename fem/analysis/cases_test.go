@@ -276,17 +276,7 @@ func TestDeflectionCheckFindsTheWorstArrangementAnywhere(t *testing.T) {
 	down := func(x float64) float64 {
 		return w1*x*(L*L*L-2*L*x*x+x*x*x)/(24*EI) + mB*x*(L*L-x*x)/(6*EI*L)
 	}
-	// Largest by golden-section search of the smooth, single-peaked curve.
-	lo, hi := 0.0, L
-	for range 200 {
-		m1, m2 := hi-0.618033988749895*(hi-lo), lo+0.618033988749895*(hi-lo)
-		if down(m1) < down(m2) {
-			lo = m1
-		} else {
-			hi = m2
-		}
-	}
-	want := down((lo + hi) / 2)
+	want := peak(down, 0, L)
 	r := envelopeCheck(t, upliftModel(fem.Serviceability), func(r check.Result) bool { return r.Code == check.CodeDeflection && r.Span == [2]float64{0, 4} }, "no deflection check of the first span")
 	if math.Abs(math.Abs(r.Value)-want) > 1e-9*want || !strings.Contains(r.Name, "uplift on span 2)") {
 		t.Errorf("%s: %.12g m; want %.12g m with the uplift on span 2", r.Name, r.Value, want)
@@ -493,16 +483,7 @@ func TestShownCombinationChecksTakePatternLoading(t *testing.T) {
 	down := func(x float64) float64 {
 		return w*x*(L*L*L-2*L*x*x+x*x*x)/(24*EI) - w*L*L/16*x*(L*L-x*x)/(6*EI*L)
 	}
-	lo, hi := 0.0, L
-	for range 200 {
-		m1, m2 := hi-0.618033988749895*(hi-lo), lo+0.618033988749895*(hi-lo)
-		if down(m1) < down(m2) {
-			lo = m1
-		} else {
-			hi = m2
-		}
-	}
-	want := down((lo + hi) / 2)
+	want := peak(down, 0, L)
 	m := load(t, "two_span_cases.json")
 	show, ok := ShowNamed(&m, "pattern")
 	if !ok {
@@ -524,4 +505,19 @@ func TestShownCombinationChecksTakePatternLoading(t *testing.T) {
 	if !found {
 		t.Error("no deflection check of the first span")
 	}
+}
+
+// peak is the largest value of f on [lo, hi], a smooth curve with one peak
+// there, by golden-section search.
+func peak(f func(float64) float64, lo, hi float64) float64 {
+	const g = 0.618033988749895 // (√5 − 1)/2
+	for range 200 {
+		m1, m2 := hi-g*(hi-lo), lo+g*(hi-lo)
+		if f(m1) < f(m2) {
+			lo = m1
+		} else {
+			hi = m2
+		}
+	}
+	return f((lo + hi) / 2)
 }
