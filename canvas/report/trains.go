@@ -529,7 +529,7 @@ func envelopeJSON(e *moving.Envelope) *TrainEnvelopeJSON {
 	for q, qty := range moving.EnvelopeQuantities {
 		eq := EnvelopeQuantity{Quantity: qty, Max: e.Max[q], Min: e.Min[q]}
 		for s := range e.Stations {
-			hi, lo := e.Placement(e.MaxAt[q][s]), e.Placement(e.MinAt[q][s])
+			hi, lo := e.MaxAt[q][s], e.MinAt[q][s]
 			eq.MaxFront, eq.MaxDirection = append(eq.MaxFront, hi.Front), append(eq.MaxDirection, hi.Direction.String())
 			eq.MinFront, eq.MinDirection = append(eq.MinFront, lo.Front), append(eq.MinDirection, lo.Direction.String())
 		}
