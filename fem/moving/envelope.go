@@ -47,7 +47,6 @@ func (e *extreme) least(v float64, at Placement) {
 // before the point and just beyond it. Where the lines may jump, a
 // position with an axle standing on the point is also evaluated with the
 // axle on each of the sides given (on the line's sides of its jump).
-//
 func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
 	n, ell := ls.n, ls.length
 	r.terms(ls)
