@@ -354,6 +354,9 @@ type Envelope struct {
 	Step      float64
 	Positions int
 	runs      []run
+	// read is the side a station on an inner key point is read on, or 0
+	// for the larger of both (EnvelopeSide).
+	read fem.Side
 }
 
 // ReactionEnvelope is the range of one reaction over a train's positions.
@@ -539,21 +542,41 @@ func (in *Influence) Envelope(t *Train, mesh fem.Mesh, stations []float64) (*Env
 	if own {
 		stations = Stations(mesh)
 	}
-	e := in.envelopeAt(s, t, runs, stations)
+	e := in.envelopeAt(s, t, runs, stations, 0)
 	if own {
 		if extra := in.peaks(s, e); len(extra) > 0 {
 			stations = append(slices.Clone(stations), extra...)
 			slices.Sort(stations)
-			e = in.envelopeAt(s, t, runs, slices.Compact(stations))
+			e = in.envelopeAt(s, t, runs, slices.Compact(stations), 0)
 		}
 	}
 	in.envelopeReactions(s, e)
 	return e, nil
 }
 
-// envelopeAt is train t's envelope at the stations, without reactions.
-func (in *Influence) envelopeAt(s *sweeps, t *Train, runs []run, stations []float64) *Envelope {
-	e := &Envelope{Train: *t, Stations: stations, runs: runs, Step: runs[0].step, Positions: runs[0].n}
+// EnvelopeSide is train t's envelope at the stations (which it needs),
+// each station on an inner key point (a support, a hinge, a change of
+// section) read on side alone: where a field jumps there (the shear force
+// at a support) Envelope holds the larger of the two sides, EnvelopeSide
+// that side's, to combine with other loads' field on the same side.
+func (in *Influence) EnvelopeSide(t *Train, mesh fem.Mesh, stations []float64, side fem.Side) (*Envelope, error) {
+	s := in.bending
+	if s == nil {
+		return nil, in.bendingErr
+	}
+	runs, err := t.runs(in.model.Length(), mesh)
+	if err != nil {
+		return nil, err
+	}
+	e := in.envelopeAt(s, t, runs, stations, side)
+	in.envelopeReactions(s, e)
+	return e, nil
+}
+
+// envelopeAt is train t's envelope at the stations, without reactions,
+// read on side at inner key points (0: the larger of both).
+func (in *Influence) envelopeAt(s *sweeps, t *Train, runs []run, stations []float64, side fem.Side) *Envelope {
+	e := &Envelope{Train: *t, Stations: stations, runs: runs, Step: runs[0].step, Positions: runs[0].n, read: side}
 	nq := len(EnvelopeQuantities)
 	e.Max, e.Min = make([][]float64, nq), make([][]float64, nq)
 	e.MaxAt, e.MinAt = make([][]Placement, nq), make([][]Placement, nq)
@@ -583,7 +606,7 @@ const maxClimb = 1000
 // largest and smallest value over the member lie: under an axle
 // (axlePeaks) or where Peak finds them.
 func (in *Influence) peaks(s *sweeps, e *Envelope) []float64 {
-	probe := func(xs []float64) *Envelope { return in.envelopeAt(s, &e.Train, e.runs, xs) }
+	probe := func(xs []float64) *Envelope { return in.envelopeAt(s, &e.Train, e.runs, xs, 0) }
 	out := in.axlePeaks(s, e)
 	for q := range EnvelopeQuantities {
 		for _, upper := range []bool{true, false} {
@@ -761,10 +784,12 @@ func (in *Influence) envelopeStations(s *sweeps, e *Envelope, from, to int) {
 		sides := []fem.Side{fem.Right}
 		if k := s.keyIndex(x); math.Abs(x-s.keys[k]) <= keyTolerance*s.length {
 			x = s.keys[k]
-			switch k {
-			case 0:
-			case K:
+			switch {
+			case k == 0:
+			case k == K:
 				sides = []fem.Side{fem.Left}
+			case e.read != 0:
+				sides = []fem.Side{e.read}
 			default:
 				sides = []fem.Side{fem.Left, fem.Right}
 			}
