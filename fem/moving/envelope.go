@@ -281,15 +281,22 @@ func (ls *lines) advance(p *int, sigma float64) int {
 }
 
 // scanJumps evaluates the positions that put an axle on ls.at, where the
-// lines jump, with that axle on the given sides of the point.
+// lines jump, with that axle on the given sides of the point, where the
+// position is an end of the run: inside it the stretches of positions
+// either side end there, and scan takes their ends, the axle just before
+// the point and just beyond it.
 func (r *run) scanJumps(ls *lines, hi, lo []extreme, sides []fem.Side) {
 	first, last := r.s0, r.front(r.n-1)
 	for a, ax := range r.axles {
 		front := ls.at - ax.offset
-		if front < first-r.tolerance || front > last+r.tolerance {
+		switch {
+		case math.Abs(front-first) <= r.tolerance:
+			front = first
+		case math.Abs(front-last) <= r.tolerance:
+			front = last
+		default:
 			continue
 		}
-		front = min(max(front, first), last)
 		at := Placement{r.direction, front}
 		for i := range ls.n {
 			base := 0.0
@@ -438,15 +445,6 @@ func (e *Envelope) Combine(factor float64, base Base) *Envelope {
 type Base struct {
 	Max, Min                   [][]float64
 	MaxReactions, MinReactions []float64
-}
-
-// AllPositions is the number of positions in every direction together.
-func (e *Envelope) AllPositions() int {
-	n := 0
-	for _, r := range e.runs {
-		n += r.n
-	}
-	return n
 }
 
 // Extreme is one extreme of a quantity: its value, where it is and the
@@ -604,11 +602,17 @@ const maxClimb = 1000
 
 // peaks are the points, off the stations of e, where each quantity's
 // largest and smallest value over the member lie: under an axle
-// (axlePeaks) or where Peak finds them.
+// (axlePeaks) or where Peak finds them (the deflection and the rotation,
+// and the rest where a uniform load may turn them between axles).
 func (in *Influence) peaks(s *sweeps, e *Envelope) []float64 {
 	probe := func(xs []float64) *Envelope { return in.envelopeAt(s, &e.Train, e.runs, xs, 0) }
 	out := in.axlePeaks(s, e)
 	for q := range EnvelopeQuantities {
+		if q >= peakShear && e.Train.Uniform.Load == 0 {
+			// With axles alone these stand under an axle or on a key
+			// point: axlePeaks and the stations hold them.
+			continue
+		}
 		for _, upper := range []bool{true, false} {
 			if ex, moved := e.Peak(q, upper, probe); moved {
 				out = append(out, ex.X)
@@ -634,7 +638,8 @@ func (in *Influence) peaks(s *sweeps, e *Envelope) []float64 {
 // the best of them while that is worse still. Then it closes in on the
 // peak between the stations either side of where it stands: refineProbes
 // points at a time, spread evenly, keeping the stretch around the best
-// of them, until the stretch is refineTolerance of the member long. A
+// of them, until the stretch is refineTolerance of the member long or
+// the field flat over it. A
 // peak the climb does not reach (the envelope turning more than once
 // between two stations) is missed; for a train alone Influence.Envelope
 // adds the exact peaks under the axles first (axlePeaks).
@@ -654,18 +659,21 @@ func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (
 	b := e.worstStation(q, upper, scale)
 	x, pos, v := e.Stations[b], at[b], values[b]
 	// try probes xs and moves to the worst of them where that is worse
-	// than where Peak stands, reporting whether the probe answered.
-	try := func(xs []float64) (moved, answered bool) {
+	// than where Peak stands, reporting whether the probe answered and
+	// whether the field is flat to round-off over xs and where Peak stood.
+	try := func(xs []float64) (moved, answered, flat bool) {
 		p := probe(xs)
 		if p == nil {
-			return false, false
+			return false, false, false
 		}
 		pv, pat := p.Max[q], p.MaxAt[q]
 		if !upper {
 			pv, pat = p.Min[q], p.MinAt[q]
 		}
 		best := -1
+		flat = true
 		for i := range xs {
+			flat = flat && math.Abs(pv[i]-v) <= flatField*scale
 			if fem.BeyondField(sign*pv[i], sign*v, scale) && (best < 0 || sign*pv[i] > sign*pv[best]) {
 				best = i
 			}
@@ -673,7 +681,7 @@ func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (
 		if best >= 0 {
 			x, pos, v = xs[best], pat[best], pv[best]
 		}
-		return best >= 0, true
+		return best >= 0, true, flat
 	}
 	for c := range maxClimb {
 		var cands []float64
@@ -692,7 +700,7 @@ func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (
 		if len(cands) == 0 {
 			break
 		}
-		if moved, answered := try(cands); !moved || !answered {
+		if moved, answered, _ := try(cands); !moved || !answered {
 			break
 		}
 	}
@@ -711,7 +719,7 @@ func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (
 				xs = append(xs, u)
 			}
 		}
-		if _, answered := try(xs); !answered {
+		if _, answered, flat := try(xs); !answered || flat {
 			break
 		}
 		lo, hi = max(lo, x-d), min(hi, x+d)
@@ -720,12 +728,15 @@ func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (
 }
 
 // Peak closes in on a peak refineProbes points at a time, until the
-// stretch it lies in is refineTolerance of the member long: a peak under
-// an axle is then missed by the shear force times that, one where the
-// field turns smoothly by far less.
+// stretch it lies in is refineTolerance of the member long, or the field
+// is flat over it to flatField of its size: a peak under an axle is then
+// missed by the shear force times that stretch, one where the field turns
+// smoothly by round-off. Three points a time narrow the stretch to half
+// for the fewest points.
 const (
-	refineProbes    = 8
+	refineProbes    = 3
 	refineTolerance = 1e-10
+	flatField       = 1e-14
 )
 
 // vertex is where the parabola through three points (x[i], v[i]) turns,
