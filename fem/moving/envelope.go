@@ -524,9 +524,10 @@ var bothSides = []fem.Side{fem.Left, fem.Right}
 const parallelStations = 2048
 
 // Envelope finds train t's envelope at the stations (nil for Stations of
-// mesh, with the peaks added: see peaks), with the step t gives or one
-// derived from mesh. Its cost grows with the stations, the axles and the
-// key points, not with the number of positions (see the package comment).
+// mesh, with the peaks added: see peaks) over every position of its front
+// along its run; the step t gives (or one derived from mesh) spaces the
+// positions it is shown at. Its cost grows with the stations, the axles
+// and the key points, not with the step (see the package comment).
 func (in *Influence) Envelope(t *Train, mesh fem.Mesh, stations []float64) (*Envelope, error) {
 	s := in.bending
 	if s == nil {
@@ -847,9 +848,9 @@ func (in *Influence) envelopeStations(s *sweeps, e *Envelope, from, to int) {
 }
 
 // Worst is the largest and the smallest value of target tg under train t
-// over all its positions, with the positions giving them, for the step t
-// gives or one derived from mesh. A quantity at a point where it jumps is
-// read on tg.Side; a bending target only (a train loads across).
+// over every position of its front along its run, with the positions
+// giving them (the step plays no part). A quantity at a point where it
+// jumps is read on tg.Side; a bending target only (a train loads across).
 func (in *Influence) Worst(t *Train, mesh fem.Mesh, tg Target) (hi, lo Extreme, err error) {
 	if !tg.Bending() {
 		return hi, lo, errors.New("a train loads the member across: ask for a bending quantity or a transverse or rotation reaction")

@@ -75,9 +75,8 @@ type Train struct {
 
 // Limits of a train's positions.
 const (
-	// MaxPositions is the most positions a train may take in one direction:
-	// a step finer than that gains nothing a user could see, and the
-	// positions are listed in outputs.
+	// MaxPositions is the most positions a train may be shown at in one
+	// direction: a step finer than that gains nothing a user could see.
 	MaxPositions = 100000
 	// derivedPositions caps the positions of a step derived from the mesh.
 	derivedPositions = 20000
