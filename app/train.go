@@ -669,7 +669,7 @@ func (mw *movingWindow) showReadout() {
 	parts := []string{"x = " + u.Format(units.Position, x)}
 	if e := mw.env; e != nil {
 		s := nearestStation(e.Stations, x)
-		hi, lo := e.Placement(e.MaxAt[mw.quantityIndex][s]), e.Placement(e.MinAt[mw.quantityIndex][s])
+		hi, lo := e.MaxAt[mw.quantityIndex][s], e.MinAt[mw.quantityIndex][s]
 		parts = append(parts, fmt.Sprintf("%s at the station x = %s over all positions: largest %s (front at %s %s), smallest %s (front at %s %s)", q,
 			u.Format(units.Position, e.Stations[s]), u.Format(k, e.Max[mw.quantityIndex][s]), u.Format(units.Position, hi.Front), hi.Direction,
 			u.Format(k, e.Min[mw.quantityIndex][s]), u.Format(units.Position, lo.Front), lo.Direction))

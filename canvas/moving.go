@@ -168,7 +168,7 @@ func (b *builder) envelopeBand(in MovingInput, bands *MovingBands) {
 	mid, per := fitRange(vmin, vmax, bands.EnvelopeTop+TextHeight(labelSize)+14, bands.EnvelopeBottom-4)
 	bands.EnvelopeBaseline, bands.EnvelopePerPixel = mid, per
 	toY := func(v float64) float32 { return mid - float32(v/per) }
-	b.text(fmt.Sprintf("%s: envelope over %d positions (shaded), and where the train stands; positive up", info.Name, e.AllPositions()), 8, bands.EnvelopeTop, labelSize, 0, 0, inkColour, true)
+	b.text(fmt.Sprintf("%s: envelope over every position (shaded), and where the train stands; positive up", info.Name), 8, bands.EnvelopeTop, labelSize, 0, 0, inkColour, true)
 	upper, lower := make([]Point, len(e.Stations)), make([]Point, len(e.Stations))
 	for s, x := range e.Stations {
 		upper[s] = Point{b.sx(x), toY(hi[s])}

@@ -183,7 +183,7 @@ func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *mo
 			continue
 		}
 		if tr.Envelope != nil {
-			fmt.Fprintf(w, "  %d positions each way it moves, %s apart\n", tr.Envelope.Positions, pos(tr.Envelope.Step))
+			fmt.Fprintf(w, "  every position of its front along its run counts (the window steps through %d each way it moves, %s apart)\n", tr.Envelope.Positions, pos(tr.Envelope.Step))
 		}
 		switch {
 		case tr.Target && target != nil:

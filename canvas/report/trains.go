@@ -134,9 +134,9 @@ func trainResult(p *storage.Project, i int, in *moving.Influence, mesh fem.Mesh,
 // by-span load on one span of two with an axle on it gives more sagging
 // there than on both). Where the cases' field jumps at a station (the
 // shear force at a support), the two sides are combined apart: the train's
-// envelope is taken a little (sideShift of the length) either side of the
-// station, so its largest value meets the cases' field on the same side,
-// and the worse side is kept. arranged gives the model's combinations
+// envelope is read on either side of the station (moving.EnvelopeSide), so
+// its largest value meets the cases' field on the same side, and the worse
+// side is kept. arranged gives the model's combinations
 // solved with every span share, the same for every train.
 func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem.Mesh, e *moving.Envelope,
 	arranged func() (*fem.CombinationSolutions, error)) ([]TrainCombination, error) {
@@ -144,7 +144,6 @@ func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem
 	var out []TrainCombination
 	var cs *fem.CombinationSolutions
 	var sides [2]*moving.Envelope
-	var at [2][]float64
 	for ci, cb := range m.Combinations {
 		for _, tf := range cb.Trains {
 			if tf.Train != i {
@@ -155,9 +154,8 @@ func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem
 				if cs, err = arranged(); err != nil {
 					return nil, fmt.Errorf("combination %q with its train: %w", cb.Name, err)
 				}
-				at = sideStations(e.Stations, m.Length())
-				for k := range sides {
-					if sides[k], err = in.Envelope(&p.Trains[i], mesh, at[k]); err != nil {
+				for k, side := range []fem.Side{fem.Left, fem.Right} {
+					if sides[k], err = in.EnvelopeSide(&p.Trains[i], mesh, e.Stations, side); err != nil {
 						return nil, err
 					}
 				}
@@ -187,9 +185,8 @@ func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem
 			}
 			right := base(e.Stations, fem.Right, true)
 			c := e.Combine(tf.Factor, right)
-			// The cases' field on each side of the station itself; the
-			// train's a little beside it, which differs only by its
-			// uniform load over sideShift.
+			// The cases' field and the train's on each side of the
+			// station itself.
 			leftBase := base(e.Stations, fem.Left, false)
 			onLeft, onRight := sides[0].Combine(tf.Factor, leftBase), sides[1].Combine(tf.Factor, right)
 			tc := TrainCombination{Combination: cb.Name, Factor: tf.Factor, Envelope: c, solutions: cs, index: ci}
@@ -271,23 +268,6 @@ func (c TrainCombination) Loaded(q fem.Quantity, x float64, upper bool) fem.Gove
 		return hi[0]
 	}
 	return lo[0]
-}
-
-// sideShift is how far, relative to the member, a station is moved to
-// either side of a jump: far beyond the distance within which an axle
-// stands on a station (1e-9 of the length), small against any stretch.
-const sideShift = 1e-6
-
-// sideStations are the stations moved by sideShift of the length L to
-// their left and to their right, kept on the member.
-func sideStations(stations []float64, L float64) [2][]float64 {
-	h := sideShift * L
-	var out [2][]float64
-	for _, x := range stations {
-		out[0] = append(out[0], max(x-h, 0))
-		out[1] = append(out[1], min(x+h, L))
-	}
-	return out
 }
 
 func trainExtreme(e moving.Extreme) TrainExtreme {
@@ -529,7 +509,7 @@ func envelopeJSON(e *moving.Envelope) *TrainEnvelopeJSON {
 	for q, qty := range moving.EnvelopeQuantities {
 		eq := EnvelopeQuantity{Quantity: qty, Max: e.Max[q], Min: e.Min[q]}
 		for s := range e.Stations {
-			hi, lo := e.Placement(e.MaxAt[q][s]), e.Placement(e.MinAt[q][s])
+			hi, lo := e.MaxAt[q][s], e.MinAt[q][s]
 			eq.MaxFront, eq.MaxDirection = append(eq.MaxFront, hi.Front), append(eq.MaxDirection, hi.Direction.String())
 			eq.MinFront, eq.MinDirection = append(eq.MinFront, lo.Front), append(eq.MinDirection, lo.Direction.String())
 		}

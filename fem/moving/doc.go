@@ -47,19 +47,29 @@
 //
 // A Train is a set of axle loads with spacings and an optional uniform load
 // of given length, moving along a stated stretch of the member in one
-// direction or both, with a step that the user gives or that is derived from
-// the mesh. Every position keeps the whole train on the stretch.
+// direction or both. Every position keeps the whole train on the stretch,
+// unless it may drive off the member's ends. Its step only spaces the
+// positions the window shows and steps through: the extremes take every
+// position.
 //
 // The effect of a train at a station x is F(s) = Σ P_a·IL_x(s + e_a) plus
 // q·∫IL_x over the uniform load, s the position of the front axle and e_a
 // each axle's offset from it. Since IL_x is piecewise cubic in the load
 // position, F is piecewise cubic in s (quartic with a uniform load) between
 // the positions where an axle or an end of the uniform load passes a key
-// point or x itself. Envelope takes the largest and smallest of F over the
-// positions of the step on each such piece from the piece's ends and the
-// roots of F′, a handful of evaluations per piece, so its cost grows with
-// the stations, the axles and the key points but not with the number of
-// positions: a fine step costs nothing more.
+// point or x itself. Envelope takes the largest and smallest of F on each
+// such piece at its ends and at the roots of F′, evaluated exactly, a
+// handful of evaluations per piece, so its cost grows with the stations,
+// the axles and the key points but not with the step.
+//
+// The worst value along the member lies between stations. For the moment
+// (and the bending stress and the shear force beside an axle) it stands
+// under an axle, and the moment under axle a, Σ P_b·G(s + e_a, s + e_b),
+// is again a polynomial in s between the positions where a load passes a
+// key point (of degree 4, 5 with a uniform load: G is linear in the point
+// read within a stretch and cubic in the load's place), which axlePeaks
+// fits through samples and maximizes exactly; Envelope.Peak climbs and
+// closes in on the rest.
 //
 // Results are an aid for checking: a qualified engineer must review them,
 // and local codes and licensed practice govern any design decision.

@@ -75,17 +75,17 @@ type Train struct {
 
 // Limits of a train's positions.
 const (
-	// MaxPositions is the most positions a train may take in one direction:
-	// a step finer than that gains nothing a user could see, and the
-	// positions are listed in outputs.
+	// MaxPositions is the most positions a train may be shown at in one
+	// direction: a step finer than that gains nothing a user could see.
 	MaxPositions = 100000
 	// derivedPositions caps the positions of a step derived from the mesh.
 	derivedPositions = 20000
 	// MaxAxles is the most axles a train may have: the envelope's search
-	// for the worst place (Envelope.Peak) tries the points under every
-	// axle, each with every position, work growing with the square of the
-	// axles (on a two-span member of 12 m, 100 axles took 2 to 8 s for
-	// `stave solve`, 400 took 18 to 76 s, 1,000 more than 60 s).
+	// for the worst place (axlePeaks) works under every axle on every
+	// stretch of positions between those where a load passes a key point,
+	// work growing with the square of the axles (on the two spans of 6 m
+	// of testdata/moving/runway.json, 100 axles driving on and off took
+	// 2.3 s for `stave solve`, 30 axles 0.2 s).
 	MaxAxles = 100
 )
 
@@ -355,22 +355,22 @@ func (t *Train) Model(m *fem.Model, p Placement) fem.Model {
 // signed: it stands at front + offset).
 type placedAxle struct{ offset, load float64 }
 
-// run is one direction of a train's positions: fronts s0 + k·step for
-// k < n, numbered first + k in the envelope.
+// run is one direction of a train's positions: every front from s0 to
+// s0 + (n − 1)·step, shown and stepped through at s0 + k·step for k < n.
 type run struct {
 	direction Direction
 	s0, step  float64
 	n         int
-	first     int32
 	axles     []placedAxle
 	uniform   bool
 	q, u0, u1 float64 // the uniform load, N/m down, from front + u0 to front + u1
 	// Scratch of scan, kept between calls; fixed are the fronts at which
 	// an axle or an end of the uniform load passes a key point (setKeys).
 	breaks, fixed, moving, offsets, keys []float64
-	candidates, places                   []int
+	candidates                           []float64
+	places                               []int
 	axleTerms, uniformTerms              []poly
-	tolerance                            float64 // distance within which an axle stands on a point, m
+	tolerance                            float64 // round-off within which a front that puts an axle on a point is on the run, m
 }
 
 // runs are t's positions on a member of length L with the given step (0
@@ -403,8 +403,8 @@ func (t *Train) runs(L float64, mesh fem.Mesh) ([]run, error) {
 			// at x stands where the forward train's last load stood.
 			sign, s0 = 1, lo-length
 		}
-		r := run{direction: d, s0: s0, step: step, n: n, first: int32(len(out) * n)}
-		r.tolerance = min(1e-9*L, step/4)
+		r := run{direction: d, s0: s0, step: step, n: n}
+		r.tolerance = keyTolerance * L
 		offset := 0.0
 		for i, a := range t.Axles {
 			if i > 0 {

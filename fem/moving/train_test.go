@@ -111,39 +111,63 @@ func everyPosition(t *testing.T, tr *Train) {
 	// the fronts' sums stands on it); a uniform load counts on the member.
 	on := func(x float64) bool { return x >= -1e-9 && x <= 10+1e-9 }
 	clip := func(x float64) float64 { return min(max(x, 0), 10) }
+	// sum is the effect at x (read on side) of the train at p, an axle on
+	// x taken on axleSide of it, summed from the influence lines.
+	sum := func(l *Line, p Placement, axleSide fem.Side) float64 {
+		r := e.runs[0]
+		if p.Direction != r.direction {
+			r = e.runs[1]
+		}
+		v := r.q * l.Integral(clip(p.Front+r.u0), clip(p.Front+r.u1))
+		for _, a := range r.axles {
+			if on(p.Front + a.offset) {
+				v += a.load * l.At(p.Front+a.offset, axleSide)
+			}
+		}
+		return v
+	}
 	for q, qty := range EnvelopeQuantities {
 		var want [][2]extreme
+		// named[s] holds the effect at station s of the positions the
+		// envelope names, its largest and smallest over the sides.
+		var named [][2]extreme
 		scale := 0.0
-		for _, x := range stations {
+		for s, x := range stations {
 			sides := []fem.Side{fem.Left, fem.Right}
-			hi, lo := extreme{at: -1}, extreme{at: -1}
+			var hi, lo, nhi, nlo extreme
 			for _, side := range sides {
 				l := line(t, in, Target{Quantity: qty, X: x, Side: side})
-				for _, r := range e.runs {
-					for k := range r.n {
-						front := r.front(k)
-						for _, axleSide := range sides {
-							v := r.q * l.Integral(clip(front+r.u0), clip(front+r.u1))
-							for _, a := range r.axles {
-								if on(front + a.offset) {
-									v += a.load * l.At(front+a.offset, axleSide)
-								}
-							}
-							hi.most(v, r.first+int32(k))
-							lo.least(v, r.first+int32(k))
+				for _, axleSide := range sides {
+					for _, r := range e.runs {
+						for k := range r.n {
+							p := Placement{r.direction, r.front(k)}
+							v := sum(l, p, axleSide)
+							hi.most(v, p)
+							lo.least(v, p)
 						}
 					}
+					nhi.most(sum(l, e.MaxAt[q][s], axleSide), e.MaxAt[q][s])
+					nlo.least(sum(l, e.MinAt[q][s], axleSide), e.MinAt[q][s])
 				}
 			}
 			want = append(want, [2]extreme{hi, lo})
+			named = append(named, [2]extreme{nhi, nlo})
 			scale = max(scale, math.Abs(hi.value), math.Abs(lo.value))
 		}
 		for s, x := range stations {
-			if d := e.Max[q][s] - want[s][0].value; math.Abs(d) > 1e-9*scale {
-				t.Errorf("%s at %g: envelope's largest %.12g, every position's %.12g (position %d against %d)", qty, x, e.Max[q][s], want[s][0].value, e.MaxAt[q][s], want[s][0].at)
+			// No position of the step gives more than the envelope, and
+			// the position it names gives what it holds.
+			if d := e.Max[q][s] - want[s][0].value; d < -1e-9*scale {
+				t.Errorf("%s at %g: envelope's largest %.12g, below position %+v's %.12g", qty, x, e.Max[q][s], want[s][0].at, want[s][0].value)
 			}
-			if d := e.Min[q][s] - want[s][1].value; math.Abs(d) > 1e-9*scale {
-				t.Errorf("%s at %g: envelope's smallest %.12g, every position's %.12g (position %d against %d)", qty, x, e.Min[q][s], want[s][1].value, e.MinAt[q][s], want[s][1].at)
+			if d := e.Max[q][s] - named[s][0].value; math.Abs(d) > 1e-9*scale {
+				t.Errorf("%s at %g: envelope's largest %.12g, its position %+v gives %.12g", qty, x, e.Max[q][s], e.MaxAt[q][s], named[s][0].value)
+			}
+			if d := e.Min[q][s] - want[s][1].value; d > 1e-9*scale {
+				t.Errorf("%s at %g: envelope's smallest %.12g, above position %+v's %.12g", qty, x, e.Min[q][s], want[s][1].at, want[s][1].value)
+			}
+			if d := e.Min[q][s] - named[s][1].value; math.Abs(d) > 1e-9*scale {
+				t.Errorf("%s at %g: envelope's smallest %.12g, its position %+v gives %.12g", qty, x, e.Min[q][s], e.MinAt[q][s], named[s][1].value)
 			}
 		}
 	}
@@ -288,10 +312,10 @@ func TestCombinedEnvelope(t *testing.T) {
 				}
 				for _, got := range []struct {
 					v  float64
-					at int32
+					at Placement
 				}{{c.Max[q][s], c.MaxAt[q][s]}, {c.Min[q][s], c.MinAt[q][s]}} {
 					loads := *m
-					loads.PointLoads, _ = tr.Loads(e.Placement(got.at))
+					loads.PointLoads, _ = tr.Loads(got.at)
 					for i := range loads.PointLoads {
 						loads.PointLoads[i].Transverse *= factor
 					}
@@ -405,15 +429,16 @@ func TestWorstBetweenDefaultStations(t *testing.T) {
 }
 
 // The largest moment of a train over every position when the step is
-// coarser than the stations: each position's moment peaks under one of its
-// axles, and the peaks of neighbouring positions lie a step apart, further
-// than the stations next to the worst one. Simple beam; the moment under an
-// axle at x with the resultant W a distance e beyond it is W·(L − x − e)·x/L
-// less the moment of the loads behind it, a parabola in the position whose
-// top (x = L/2 − e/2, the classic rule) gives the absolute largest moment;
-// on the train's positions the nearest one to that top gives the largest.
-// Source: absolute maximum moment under moving concentrated loads,
-// Hibbeler, Structural Analysis, ch. 6, from memory; values by statics.
+// coarser than the stations, or holds no position at the classic one: each
+// position's moment peaks under one of its axles, and the peaks of
+// neighbouring positions lie a step apart, further than the stations next
+// to the worst one. Simple beam; the moment under an axle at x with the
+// resultant W a distance e beyond it is W·(L − x − e)·x/L less the moment
+// of the loads behind it, a parabola in the position whose top (x = L/2 −
+// e/2, the classic rule) gives the absolute largest moment, whether a
+// position of the step lies there or not. Source: absolute maximum moment
+// under moving concentrated loads, Hibbeler, Structural Analysis, ch. 6,
+// from memory; values by statics.
 func TestWorstMomentOnACoarseStep(t *testing.T) {
 	// Three axles 50, 100 and 100 kN, 2 m and 3 m apart on 12 m: the
 	// resultant 250 kN stands 2.8 m behind the front, 0.8 m beyond the
@@ -422,12 +447,11 @@ func TestWorstMomentOnACoarseStep(t *testing.T) {
 	// M = R_A·6.4 m − 100 kN·3 m = 553.333 kN·m.
 	three := []Axle{{Load: 50e3}, {Load: 100e3, Spacing: 2}, {Load: 100e3, Spacing: 3}}
 	// Two axles 80 and 40 kN, 1.3 m apart, backward from x = 1.1 m to 9.3
-	// m on 10 m: the resultant 120 kN stands 0.4333 m behind the 80 kN
-	// front, which the rule puts at 4.7833 m; the step 0.07 m is shortened
-	// to 6.9/99 m so that 100 positions fill the 6.9 m the front moves,
-	// and the nearest, front = 1.1 + 53·6.9/99 m, gives M = 120 kN·(10 −
-	// 0.4333 − f)·f/10.
-	const f = 1.1 + 53*6.9/99
+	// m on 10 m: the resultant 120 kN stands 1.3/3 m behind the 80 kN
+	// front, which the rule puts at f = (10 − 1.3/3)/2 = 4.7833 m, where
+	// M = 120 kN·(10 − 1.3/3 − f)·f/10; no position of the 0.07 m step
+	// (shortened to 6.9/99 m) lies there.
+	const f = (10 - 1.3/3) / 2
 	two := Train{Axles: []Axle{{Load: 80e3}, {Load: 40e3, Spacing: 1.3}}, From: 1.1, To: 9.3, Step: 0.07, Direction: Backward}
 	for _, c := range []struct {
 		name   string
@@ -439,7 +463,7 @@ func TestWorstMomentOnACoarseStep(t *testing.T) {
 	}{
 		{"three axles, classic position on the 0.1 m step", 12, Train{Axles: three, Step: 0.1},
 			250e3*(12-5.6)/12*6.4 - 100e3*3, []float64{6.4, 5.6}, []float64{8.4, 3.6}},
-		{"two axles backward on part of the member, 0.07 m step", 10, two,
+		{"two axles backward on part of the member, off the 0.07 m step", 10, two,
 			120e3 * (10 - 1.3/3 - f) * f / 10, []float64{f}, []float64{f}},
 	} {
 		t.Run(c.name, func(t *testing.T) {
@@ -520,7 +544,7 @@ func TestTrainWorstZeroIsNotRoundOff(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	first := e.Placement(0)
+	first := Placement{e.runs[0].direction, e.runs[0].s0}
 	hi, _ := e.Worst(fem.QDeflection)
 	_, lo := e.Worst(fem.QBendingMoment)
 	for _, c := range []struct {
