@@ -36,7 +36,7 @@ func writeMultiples(ctx context.Context, w io.Writer, src Source, format string,
 		if a.Solution != nil {
 			words += fmt.Sprintf(" (%d in all)", len(a.Solution.Mesh.Elements))
 		}
-		ms = append(ms, canvas.Multiple{Input: Input(s), Mesh: words})
+		ms = append(ms, canvas.Multiple{Input: drawing(s), Mesh: words})
 	}
 	return canvas.WriteMultiples(w, format, ms, opts.Width, opts.Height/2, opts.DPI/72)
 }

@@ -28,20 +28,7 @@ func TestMultiplesHeadTheirGaps(t *testing.T) {
 	if err := writeMultiples(context.Background(), &svg, src, "svg", Options{Width: 1200, Height: 800, DPI: 96}); err != nil {
 		t.Fatal(err)
 	}
-	var texts []string
-	dec := xml.NewDecoder(&svg)
-	for {
-		tok, err := dec.Token()
-		if err == io.EOF {
-			break
-		}
-		if err != nil {
-			t.Fatalf("the SVG is not XML: %v", err)
-		}
-		if cd, ok := tok.(xml.CharData); ok {
-			texts = append(texts, string(cd))
-		}
-	}
+	texts := svgTexts(t, svg.Bytes())
 	all := strings.Join(texts, "\n")
 	for _, n := range multiplesPerStretch {
 		h := l / float64(n)
@@ -58,5 +45,24 @@ func TestMultiplesHeadTheirGaps(t *testing.T) {
 	}
 	if !strings.Contains(all, "Results are an aid for checking only") {
 		t.Error("the small multiples carry no caution")
+	}
+}
+
+// svgTexts are the texts of an SVG file, in the order written.
+func svgTexts(t *testing.T, svg []byte) []string {
+	t.Helper()
+	var texts []string
+	dec := xml.NewDecoder(bytes.NewReader(svg))
+	for {
+		tok, err := dec.Token()
+		if err == io.EOF {
+			return texts
+		}
+		if err != nil {
+			t.Fatalf("the SVG is not XML: %v", err)
+		}
+		if cd, ok := tok.(xml.CharData); ok {
+			texts = append(texts, string(cd))
+		}
 	}
 }
