@@ -238,7 +238,7 @@ func (w *Window) setModel(m fem.Model) {
 
 // resubmit sends the current model to the solver again.
 func (w *Window) resubmit() {
-	w.solver.show = w.show
+	w.solver.show, w.solver.trains = w.show, report.TrainLabels(&w.project)
 	w.pending = w.solver.submit(w.canonicalModel(), w.adaptNodes, w.checkOptions())
 }
 

@@ -172,9 +172,19 @@ func CheckOptions(v storage.View, u units.System) check.Options {
 }
 
 // Request is the analysis of p's model (a copy), on nodes when not nil,
-// with the project's check limits and its units for the messages.
+// with the project's check limits, its units for the messages and its
+// trains' labels.
 func Request(p *storage.Project, nodes []float64) analysis.Request {
-	return analysis.Request{Model: p.Model.Clone(), Nodes: nodes, Checks: CheckOptions(p.View, UnitSystem(p.View.Units))}
+	return analysis.Request{Model: p.Model.Clone(), Nodes: nodes, Checks: CheckOptions(p.View, UnitSystem(p.View.Units)), TrainLabels: TrainLabels(p)}
+}
+
+// TrainLabels name p's moving load trains, by index (moving.Train.Label).
+func TrainLabels(p *storage.Project) []string {
+	out := make([]string, len(p.Trains))
+	for i := range p.Trains {
+		out[i] = p.Trains[i].Label(i)
+	}
+	return out
 }
 
 // NewSource is p with analysis a and its findings, in p's units, with
