@@ -23,25 +23,10 @@ import (
 // as it edits a model without cases, and the drawing shows them (the
 // other cases' loads are hidden). The solver, the file, the history and
 // the exports see the model with every load in its case (the canonical
-// form): lowerCase and liftCase turn one into the other.
+// form): lowerCase and fem.Model.CaseLifted turn one into the other.
 
-// liftCase is m in the editing form of case k: case k's point and
-// distributed loads and temperature change moved to the model's own
-// fields. A model without cases is its own editing form.
-func liftCase(m fem.Model, k int) fem.Model {
-	if len(m.Cases) == 0 {
-		return m
-	}
-	m = m.Clone()
-	k = min(max(k, 0), len(m.Cases)-1)
-	c := &m.Cases[k]
-	m.PointLoads, m.DistributedLoad, m.TemperatureChange = c.PointLoads, c.DistributedLoad, c.TemperatureChange
-	c.PointLoads, c.DistributedLoad, c.TemperatureChange = nil, nil, 0
-	return m
-}
-
-// lowerCase is the inverse of liftCase: m, in the editing form of case k,
-// with its own loads back in case k.
+// lowerCase is the inverse of fem.Model.CaseLifted: m, in the editing
+// form of case k, with its own loads back in case k.
 func lowerCase(m fem.Model, k int) fem.Model {
 	if len(m.Cases) == 0 {
 		return m
@@ -98,7 +83,7 @@ func (w *Window) validate(m *fem.Model) error {
 // the editing form of the case edited, or of the last when it has fewer.
 func (w *Window) fromHistory(m fem.Model) fem.Model {
 	w.editCase = max(min(w.editCase, len(m.Cases)-1), 0)
-	return liftCase(m, w.editCase)
+	return m.CaseLifted(w.editCase)
 }
 
 // showEnvelope fills the readout with the envelope at x when the analysis
@@ -250,7 +235,7 @@ func (w *Window) changeCases(name string, k int, change func(m *fem.Model) error
 			return err
 		}
 		w.editCase = k
-		*m = liftCase(c, k)
+		*m = c.CaseLifted(k)
 		return nil
 	})
 	if err != nil {
@@ -268,7 +253,7 @@ func (w *Window) chooseCase(k int) {
 	}
 	w.editCase = k
 	w.selected = canvasNone
-	w.project.Model = liftCase(m, k)
+	w.project.Model = m.CaseLifted(k)
 	w.modelChanged()
 	w.setStatus("editing load case %s: loads placed now go into it; the other cases' loads are hidden", m.Cases[k].Name)
 }

@@ -3,6 +3,7 @@ package app
 import (
 	"math"
 	"reflect"
+	"slices"
 	"strings"
 	"testing"
 
@@ -311,5 +312,28 @@ func TestDeletingACaseKeepsWhatIsShown(t *testing.T) {
 		if got, want := w.result.Cases.Show, w.show; got != want && want.Kind != analysis.ShowEnvelope {
 			t.Errorf("showing %s, deleting case %d: the analysis shows %+v, the choice %+v", c.show, c.delete+1, got, want)
 		}
+	}
+}
+
+// The window's checks name a train that a combination takes as every
+// other message does, by its name (docs/format.md, trains): the caution
+// said "moving load train 1" of the file's only train, named "pair".
+func TestCombinationTrainCautionNamesTheTrain(t *testing.T) {
+	p, err := storage.Load("../testdata/two_span_cases.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	p.Trains = []moving.Train{{Name: "pair", Axles: []moving.Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}}}
+	p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 0, Factor: 1.5}}
+	w, q := newTestWindow(t, p)
+	finished(t, w, q)
+	var names []string
+	for _, f := range w.checks {
+		if f.Code == analysis.CodeTrainNotChecked {
+			names = append(names, f.Name)
+		}
+	}
+	if want := `combination "both" with moving load train "pair"`; !slices.Contains(names, want) {
+		t.Errorf("the train cautions are %q, want %q", names, want)
 	}
 }

@@ -48,6 +48,7 @@ func (w *Window) exportSource() exportSource {
 		if w.adaptNodes == nil {
 			r.Nodes = nil
 		}
+		r.Show = w.show
 		out.pending = &r
 	}
 	return out

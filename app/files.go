@@ -259,7 +259,7 @@ func (w *Window) openPath(path string) {
 func (w *Window) replaceProject(p *storage.Project, path string) {
 	w.project, w.saved, w.path = cloneProject(*p), cloneProject(*p), path
 	w.editCase, w.show = 0, analysis.Show{}
-	w.project.Model = liftCase(w.project.Model, 0)
+	w.project.Model = w.project.Model.CaseLifted(0)
 	w.hist = history{}
 	w.selected = canvasNone
 	w.highlight = [2]float64{}

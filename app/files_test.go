@@ -16,6 +16,7 @@ import (
 	"stave/canvas"
 	"stave/canvas/report"
 	"stave/fem"
+	"stave/fem/analysis"
 	"stave/storage"
 )
 
@@ -390,5 +391,31 @@ func TestWriteFileFailingHalfWay(t *testing.T) {
 	entries, _ := os.ReadDir(dir)
 	if len(entries) != 1 {
 		t.Errorf("%d files in the folder after the failed exports, want only the previous one", len(entries))
+	}
+}
+
+// An export made while the solver still works on what the window shows
+// (its analysis then runs for the export) shows what the window shows:
+// its request took no Show, so a case or combination chosen a moment
+// before an export came out as the envelope.
+func TestExportWhileSolvingShowsWhatIsShown(t *testing.T) {
+	p, err := storage.Load(filepath.Join("..", "testdata", "two_span_cases.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	w, q := newTestWindow(t, p)
+	finished(t, w, q)
+	want := analysis.Show{Kind: analysis.ShowCase, Index: 1}
+	w.setShow(want) // not delivered until the queue is drained
+	e := w.exportSource()
+	if e.pending == nil {
+		t.Fatal("the export took the analysis of what was shown before")
+	}
+	src, err := e.finish(context.Background())
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := src.Analysis.Cases.Show; got != want {
+		t.Errorf("the export shows %s, the window %s", got.Title(&p.Model), want.Title(&p.Model))
 	}
 }

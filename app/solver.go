@@ -60,9 +60,11 @@ type solver struct {
 	next    uint64        // owned by the submitting (UI) goroutine
 
 	stages stages
-	// show is what the next request shows of a model with cases; set by
-	// the submitting goroutine.
-	show analysis.Show
+	// show is what the next request shows of a model with cases, and
+	// trains the labels of the project's trains; set by the submitting
+	// goroutine.
+	show   analysis.Show
+	trains []string
 	// post runs a function on the UI goroutine: fyne.Do in the application,
 	// a queue the test drains in tests.
 	post    func(func())
@@ -88,7 +90,7 @@ func newSolver(st stages, post func(func()), deliver func(result)) *solver {
 // only (the UI's).
 func (s *solver) submit(m fem.Model, nodes []float64, opts check.Options) uint64 {
 	s.next++
-	r := request{s.next, analysis.Request{Model: m.Clone(), Nodes: append([]float64(nil), nodes...), Checks: opts, Show: s.show}}
+	r := request{s.next, analysis.Request{Model: m.Clone(), Nodes: append([]float64(nil), nodes...), Checks: opts, Show: s.show, TrainLabels: s.trains}}
 	if nodes == nil {
 		r.Nodes = nil
 	}

@@ -3,6 +3,7 @@ package app
 import (
 	"fmt"
 	"slices"
+	"strconv"
 	"strings"
 
 	"fyne.io/fyne/v2"
@@ -88,6 +89,7 @@ type shownNumber struct {
 
 // axleRow is one row of the axle table.
 type axleRow struct {
+	number        *widget.Label
 	load, spacing *widget.Entry
 	row           *fyne.Container
 }
@@ -324,33 +326,55 @@ func (mw *movingWindow) setAxleRows(axles []moving.Axle) {
 }
 
 func (mw *movingWindow) addAxleRow(a moving.Axle) {
-	r := axleRow{load: widget.NewEntry(), spacing: widget.NewEntry()}
+	r := axleRow{number: widget.NewLabel(strconv.Itoa(len(mw.axleRows) + 1)), load: widget.NewEntry(), spacing: widget.NewEntry()}
 	mw.submits(r.load)
 	mw.submits(r.spacing)
 	r.load.SetPlaceHolder("load")
 	r.spacing.SetPlaceHolder("spacing")
 	mw.setNumber(r.load, units.Force, a.Load, true)
 	if len(mw.axleRows) == 0 {
-		r.spacing.SetPlaceHolder("(the front)")
-		r.spacing.Disable()
+		mw.makeFront(r)
 	} else {
 		mw.setNumber(r.spacing, units.Position, a.Spacing, true)
 	}
 	remove := widget.NewButton("×", nil)
-	r.row = container.NewBorder(nil, nil, widget.NewLabel(fmt.Sprintf("%d", len(mw.axleRows)+1)), remove, container.NewGridWithColumns(2, r.load, r.spacing))
-	remove.OnTapped = func() {
-		k := slices.IndexFunc(mw.axleRows, func(o axleRow) bool { return o.row == r.row })
-		if k < 0 {
-			return
-		}
-		delete(mw.shown, r.load)
-		delete(mw.shown, r.spacing)
-		mw.axleRows = slices.Delete(mw.axleRows, k, k+1)
-		axles, _ := mw.readAxles()
-		mw.setAxleRows(axles)
-	}
+	r.row = container.NewBorder(nil, nil, r.number, remove, container.NewGridWithColumns(2, r.load, r.spacing))
+	remove.OnTapped = func() { mw.removeAxleRow(r.row) }
 	mw.axleRows = append(mw.axleRows, r)
 	mw.axles.Add(r.row)
+}
+
+// makeFront makes r the axle table's first row, the front axle's, which
+// has no spacing to type.
+func (mw *movingWindow) makeFront(r axleRow) {
+	delete(mw.shown, r.spacing)
+	r.spacing.SetText("")
+	r.spacing.SetPlaceHolder("(the front)")
+	r.spacing.Disable()
+}
+
+// removeAxleRow takes the axle row row out of the table and leaves the
+// others as typed, numbered again: the table is not read, so a field that
+// cannot be read stays as it is (reading it, and writing the rows again
+// from what was read, dropped every row from such a field on). When the
+// front row goes, the next becomes the front.
+func (mw *movingWindow) removeAxleRow(row *fyne.Container) {
+	k := slices.IndexFunc(mw.axleRows, func(o axleRow) bool { return o.row == row })
+	if k < 0 {
+		return
+	}
+	r := mw.axleRows[k]
+	delete(mw.shown, r.load)
+	delete(mw.shown, r.spacing)
+	mw.axleRows = slices.Delete(mw.axleRows, k, k+1)
+	mw.axles.Remove(row)
+	for i, o := range mw.axleRows {
+		o.number.SetText(strconv.Itoa(i + 1))
+	}
+	if k == 0 && len(mw.axleRows) > 0 {
+		mw.makeFront(mw.axleRows[0])
+	}
+	mw.rowsChanged()
 }
 
 // rowsChanged lays the form out again for the axle table's new rows.

@@ -6,6 +6,7 @@ import (
 	"path/filepath"
 	"reflect"
 	"slices"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -193,19 +194,77 @@ func TestMovingWindowRemovesTheAxleClicked(t *testing.T) {
 	mw.choose(1)
 	q.waitFor(t, "the cart's envelope", func() bool { return mw.env != nil && mw.env.Train.Name == "maintenance cart" })
 	mw.axleRows[0].load.SetText("")
-	remove := func(r axleRow) *widget.Button {
-		for _, o := range test.LaidOutObjects(r.row) {
-			if b, ok := o.(*widget.Button); ok && b.Text == "×" {
-				return b
-			}
-		}
-		t.Fatal("no × in the axle row")
-		return nil
-	}
-	test.Tap(remove(mw.axleRows[2]))
+	test.Tap(axleRemover(t, mw.axleRows[2]))
 	axles, err := mw.readAxles()
 	if err != nil || len(axles) != 1 || axles[0].Load != 9000 {
 		t.Errorf("after removing the third of the cart's axles (the first left empty): %+v, %v; want the second alone, 9 kN", axles, err)
+	}
+}
+
+// axleRemover is the × of axle row r.
+func axleRemover(t *testing.T, r axleRow) *widget.Button {
+	t.Helper()
+	for _, o := range test.LaidOutObjects(r.row) {
+		if b, ok := o.(*widget.Button); ok && b.Text == "×" {
+			return b
+		}
+	}
+	t.Fatal("no × in the axle row")
+	return nil
+}
+
+// The × of an axle row removes that row alone and leaves the others as
+// typed, a typo too: the table was read to remove a row and written again
+// from what it read, which stops at a field it cannot read, so a typo in
+// one row and a × in another dropped every row from the typo on without a
+// word. The rows are numbered again; when the front goes, the next row is
+// the front, which has no spacing.
+func TestMovingWindowRemovingAnAxleKeepsTheOthersAsTyped(t *testing.T) {
+	_, q, mw := runwayWindow(t)
+	mw.choose(1)
+	q.waitFor(t, "the cart's envelope", func() bool { return mw.env != nil && mw.env.Train.Name == "maintenance cart" })
+	typed := [][2]string{} // the cart's rows as the form writes them
+	for _, r := range mw.axleRows {
+		typed = append(typed, [2]string{r.load.Text, r.spacing.Text})
+	}
+	if len(typed) != 3 {
+		t.Fatalf("%d rows for the cart's 3 axles", len(typed))
+	}
+	for _, c := range []struct {
+		name         string
+		typo, remove int    // rows, from 0
+		field        string // "load" or "spacing"
+		want         [][2]string
+	}{
+		{"a typo in the first load, the last row removed", 0, 2, "load", [][2]string{{"6,0", ""}, typed[1]}},
+		{"a typo in the second load, the last row removed", 1, 2, "load", [][2]string{typed[0], {"9 kN/m", typed[1][1]}}},
+		{"a typo in the last spacing, the second row removed", 2, 1, "spacing", [][2]string{typed[0], {typed[2][0], "0..9"}}},
+		{"a typo in the second load, the front removed", 1, 0, "load", [][2]string{{"9 kN/m", ""}, typed[2]}},
+	} {
+		mw.choose(1)
+		r := mw.axleRows[c.typo]
+		e := r.load
+		if c.field == "spacing" {
+			e = r.spacing
+		}
+		e.SetText(map[string]string{"load": "9 kN/m", "spacing": "0..9"}[c.field])
+		if c.typo == 0 {
+			e.SetText("6,0")
+		}
+		test.Tap(axleRemover(t, mw.axleRows[c.remove]))
+		var got [][2]string
+		for i, r := range mw.axleRows {
+			got = append(got, [2]string{r.load.Text, r.spacing.Text})
+			if n := r.number.Text; n != strconv.Itoa(i+1) {
+				t.Errorf("%s: row %d is numbered %q", c.name, i+1, n)
+			}
+		}
+		if !reflect.DeepEqual(got, c.want) {
+			t.Errorf("%s: rows %q, want %q", c.name, got, c.want)
+		}
+		if len(mw.axleRows) > 0 && !mw.axleRows[0].spacing.Disabled() {
+			t.Errorf("%s: the front row's spacing can be typed in", c.name)
+		}
 	}
 }
 

@@ -113,7 +113,7 @@ func newWindow(a fyne.App, p *storage.Project, path string, o options) *Window {
 		p = &storage.Project{View: storage.DefaultView()}
 	}
 	w.project = cloneProject(*p)
-	w.project.Model = liftCase(w.project.Model, 0)
+	w.project.Model = w.project.Model.CaseLifted(0)
 	w.saved = cloneProject(*p)
 	w.units = report.UnitSystem(w.project.View.Units)
 	w.dimensions = true
@@ -238,7 +238,7 @@ func (w *Window) setModel(m fem.Model) {
 
 // resubmit sends the current model to the solver again.
 func (w *Window) resubmit() {
-	w.solver.show = w.show
+	w.solver.show, w.solver.trains = w.show, report.TrainLabels(&w.project)
 	w.pending = w.solver.submit(w.canonicalModel(), w.adaptNodes, w.checkOptions())
 }
 
@@ -371,9 +371,6 @@ func (w *Window) sceneInput() canvas.Input {
 	in.Selected, in.HoverX, in.Hovering, in.Highlight = w.selected, w.draw.hoverX, w.draw.hovering, w.highlight
 	if m := &w.project.Model; len(m.Cases) > 0 {
 		in.LoadsOf = analysis.Show{Kind: analysis.ShowCase, Index: w.editCase}.Title(m)
-		if a := w.result; a != nil && a.Cases != nil {
-			in.Showing = a.Cases.Show.Title(m)
-		}
 	}
 	in.Cache, in.Handles = &w.draw.cache, true
 	return in

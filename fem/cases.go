@@ -131,6 +131,22 @@ func (m *Model) LoadSet(i int) Model {
 	return c
 }
 
+// CaseLifted is m with case k's point and distributed loads and
+// temperature change moved to its own load fields (and out of the case):
+// the form in which the window edits case k and a drawing draws its
+// loads. A model without cases is returned as it is.
+func (m *Model) CaseLifted(k int) Model {
+	c := m.Clone()
+	if len(m.Cases) == 0 {
+		return c
+	}
+	k = min(max(k, 0), len(c.Cases)-1)
+	lc := &c.Cases[k]
+	c.PointLoads, c.DistributedLoad, c.TemperatureChange = lc.PointLoads, lc.DistributedLoad, lc.TemperatureChange
+	lc.PointLoads, lc.DistributedLoad, lc.TemperatureChange = nil, nil, 0
+	return c
+}
+
 // gatherLoadSets gathers every load set of m on keys.
 func gatherLoadSets(m *Model, keys []float64) []Loads {
 	out := make([]Loads, m.LoadSetCount())

@@ -249,3 +249,47 @@ func envelopeSVG(t *testing.T, p *storage.Project) string {
 	}
 	return b.String()
 }
+
+// A drawing of a model with load cases draws the loads of one case, as the
+// window draws the case it edits (docs/window.md, the drawing): the case
+// shown, or for a combination or the envelope the first case the
+// (first) combination takes, with the line that says whose loads and
+// whose results each are when they differ. The two-span model's first
+// span case is set to 7 kN/m here so its label tells it from the 10 kN/m
+// of both spans; the labels are the file's intensities, read back.
+func TestExportDrawsTheLoadsOfACase(t *testing.T) {
+	p, err := storage.Load("../../testdata/two_span_cases.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i := range p.Model.Cases[1].DistributedLoad[0].Points {
+		p.Model.Cases[1].DistributedLoad[0].Points[i].Intensity = -7e3
+	}
+	seven, ten := units.SI.Format(units.LineLoad, 7e3), units.SI.Format(units.LineLoad, 10e3)
+	for _, c := range []struct {
+		name      string
+		show      analysis.Show
+		load, not string
+		whose     string // "" for no line
+	}{
+		{"case first span", analysis.Show{Kind: analysis.ShowCase, Index: 1}, seven, ten, ""},
+		{"combination first", analysis.Show{Kind: analysis.ShowCombination, Index: 1}, seven, ten,
+			"loads drawn: load case first span; deflection and reactions: combination first"},
+		{"envelope", analysis.Show{Kind: analysis.ShowEnvelope}, ten, seven,
+			"loads drawn: load case both spans; deflection and reactions: combination both"},
+	} {
+		var b bytes.Buffer
+		if _, err := Export(context.Background(), &b, p, "svg", Options{Units: units.SI, Show: c.show}); err != nil {
+			t.Fatal(err)
+		}
+		texts := svgTexts(t, b.Bytes())
+		all := strings.Join(texts, "\n")
+		if !slices.Contains(texts, c.load) || slices.Contains(texts, c.not) {
+			t.Errorf("%s: load labels %q present %v, %q present %v; want the first, not the second",
+				c.name, c.load, slices.Contains(texts, c.load), c.not, slices.Contains(texts, c.not))
+		}
+		if has := strings.Contains(all, "loads drawn"); c.whose == "" && has || c.whose != "" && !strings.Contains(all, c.whose) {
+			t.Errorf("%s: want the line %q, the drawing says:\n%s", c.name, c.whose, all)
+		}
+	}
+}

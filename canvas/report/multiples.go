@@ -17,8 +17,9 @@ var multiplesPerStretch = []int{1, 2, 4, 8}
 
 // writeMultiples writes the small multiples of src's project as format:
 // its member analysed on 1, 2, 4 and 8 elements per stretch between key
-// points, drawn one under the other with each one's largest gaps. Each
-// drawing is opts.Width × opts.Height/2 points.
+// points, drawn one under the other with each one's largest gaps, each
+// showing what src's analysis shows of a model with cases. Each drawing is
+// opts.Width × opts.Height/2 points.
 func writeMultiples(ctx context.Context, w io.Writer, src Source, format string, opts Options) error {
 	p := src.Project
 	keys := fem.KeyPoints(&p.Model)
@@ -26,6 +27,9 @@ func writeMultiples(ctx context.Context, w io.Writer, src Source, format string,
 	for _, n := range multiplesPerStretch {
 		r := Request(p, study.Subdivide(keys, n))
 		r.Checks.Units = src.Units
+		if a := src.Analysis; a != nil && a.Cases != nil {
+			r.Show = a.Cases.Show
+		}
 		a, err := analysis.Run(ctx, r)
 		if err != nil {
 			return err
@@ -36,7 +40,7 @@ func writeMultiples(ctx context.Context, w io.Writer, src Source, format string,
 		if a.Solution != nil {
 			words += fmt.Sprintf(" (%d in all)", len(a.Solution.Mesh.Elements))
 		}
-		ms = append(ms, canvas.Multiple{Input: Input(s), Mesh: words})
+		ms = append(ms, canvas.Multiple{Input: drawing(s), Mesh: words})
 	}
 	return canvas.WriteMultiples(w, format, ms, opts.Width, opts.Height/2, opts.DPI/72)
 }

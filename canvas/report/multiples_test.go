@@ -8,6 +8,7 @@ import (
 	"strings"
 	"testing"
 
+	"stave/fem/analysis"
 	"stave/fem/units"
 	"stave/storage"
 )
@@ -28,20 +29,7 @@ func TestMultiplesHeadTheirGaps(t *testing.T) {
 	if err := writeMultiples(context.Background(), &svg, src, "svg", Options{Width: 1200, Height: 800, DPI: 96}); err != nil {
 		t.Fatal(err)
 	}
-	var texts []string
-	dec := xml.NewDecoder(&svg)
-	for {
-		tok, err := dec.Token()
-		if err == io.EOF {
-			break
-		}
-		if err != nil {
-			t.Fatalf("the SVG is not XML: %v", err)
-		}
-		if cd, ok := tok.(xml.CharData); ok {
-			texts = append(texts, string(cd))
-		}
-	}
+	texts := svgTexts(t, svg.Bytes())
 	all := strings.Join(texts, "\n")
 	for _, n := range multiplesPerStretch {
 		h := l / float64(n)
@@ -58,5 +46,51 @@ func TestMultiplesHeadTheirGaps(t *testing.T) {
 	}
 	if !strings.Contains(all, "Results are an aid for checking only") {
 		t.Error("the small multiples carry no caution")
+	}
+}
+
+// svgTexts are the texts of an SVG file, in the order written.
+func svgTexts(t *testing.T, svg []byte) []string {
+	t.Helper()
+	var texts []string
+	dec := xml.NewDecoder(bytes.NewReader(svg))
+	for {
+		tok, err := dec.Token()
+		if err == io.EOF {
+			return texts
+		}
+		if err != nil {
+			t.Fatalf("the SVG is not XML: %v", err)
+		}
+		if cd, ok := tok.(xml.CharData); ok {
+			texts = append(texts, string(cd))
+		}
+	}
+}
+
+// The small multiples of a model with load cases show what the export
+// shows (--show): a case's are drawn as the case, not as the envelope of
+// the combinations that every other mesh of them drew.
+func TestMultiplesShowWhatIsShown(t *testing.T) {
+	p, err := storage.Load("../../testdata/two_span_cases.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		show     analysis.Show
+		envelope bool
+	}{{analysis.Show{Kind: analysis.ShowCase, Index: 1}, false}, {analysis.Show{Kind: analysis.ShowEnvelope}, true}} {
+		var svg bytes.Buffer
+		src, err := Export(context.Background(), io.Discard, p, "svg", Options{Show: c.show})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if err := writeMultiples(context.Background(), &svg, src, "svg", Options{Width: 1200, Height: 800, DPI: 96}); err != nil {
+			t.Fatal(err)
+		}
+		all := strings.Join(svgTexts(t, svg.Bytes()), "\n")
+		if got := strings.Count(all, "envelope of the combinations"); (got > 0) != c.envelope {
+			t.Errorf("%s: the multiples say %d times that they draw the envelope", c.show.Title(&p.Model), got)
+		}
 	}
 }

@@ -172,9 +172,19 @@ func CheckOptions(v storage.View, u units.System) check.Options {
 }
 
 // Request is the analysis of p's model (a copy), on nodes when not nil,
-// with the project's check limits and its units for the messages.
+// with the project's check limits, its units for the messages and its
+// trains' labels.
 func Request(p *storage.Project, nodes []float64) analysis.Request {
-	return analysis.Request{Model: p.Model.Clone(), Nodes: nodes, Checks: CheckOptions(p.View, UnitSystem(p.View.Units))}
+	return analysis.Request{Model: p.Model.Clone(), Nodes: nodes, Checks: CheckOptions(p.View, UnitSystem(p.View.Units)), TrainLabels: TrainLabels(p)}
+}
+
+// TrainLabels name p's moving load trains, by index (moving.Train.Label).
+func TrainLabels(p *storage.Project) []string {
+	out := make([]string, len(p.Trains))
+	for i := range p.Trains {
+		out[i] = p.Trains[i].Label(i)
+	}
+	return out
 }
 
 // NewSource is p with analysis a and its findings, in p's units, with
@@ -262,8 +272,50 @@ func Input(src Source) canvas.Input {
 		in.Unreliable = analysis.Unreliable(src.Findings)
 		in.Marks = marks(src.Findings)
 		in.Envelope = envelopeInput(a)
+		if a.Cases != nil {
+			in.Showing = a.Cases.Show.Title(&p.Model)
+		}
 	}
 	return in
+}
+
+// drawing is Input(src) for a product written from src, whose model holds
+// every load in its case: the drawing takes the loads of one case
+// (drawnCase), as the window draws those of the case it edits, and names
+// them when they are not what is shown.
+func drawing(src Source) canvas.Input {
+	in := Input(src)
+	m := &src.Project.Model
+	if len(m.Cases) == 0 {
+		return in
+	}
+	k := drawnCase(src.Analysis)
+	lifted := m.CaseLifted(k)
+	in.Model = &lifted
+	in.LoadsOf = analysis.Show{Kind: analysis.ShowCase, Index: k}.Title(m)
+	return in
+}
+
+// drawnCase is the load case whose loads a drawing of analysis a draws:
+// the case shown, or the first case the combination shown takes (under
+// the envelope the first combination's, whose deflection and reactions
+// the sketch draws); the first case when a has no cases solved.
+func drawnCase(a *analysis.Analysis) int {
+	if a == nil || a.Cases == nil {
+		return 0
+	}
+	c := a.Cases
+	show := c.Show
+	if show.Kind == analysis.ShowEnvelope {
+		show = analysis.Show{Kind: analysis.ShowCombination}
+	}
+	if show.Kind == analysis.ShowCase {
+		return show.Index
+	}
+	if show.Index >= 0 && show.Index < len(c.Combinations) && len(c.Combinations[show.Index].Factors) > 0 {
+		return c.Combinations[show.Index].Factors[0].Case
+	}
+	return 0
 }
 
 // warningSentences are the warnings among fs for a one-page sheet, each
@@ -304,7 +356,7 @@ func Write(w io.Writer, src Source, product string, opts Options) error {
 	if opts.Units.Name != "" {
 		src.Units = opts.Units
 	}
-	in := Input(src)
+	in := drawing(src)
 	if len(src.Project.Model.Segments) == 0 {
 		return fmt.Errorf("the project has no member to export: draw one first")
 	}

@@ -513,3 +513,39 @@ func TestTrainCombinationTakesTheWorstArrangement(t *testing.T) {
 		}
 	}
 }
+
+// The caution on a combination that takes a moving load train names the
+// train as every other message does (moving.Train.Label, docs/format.md
+// trains: the name is optional): by its name when it has one, by its number
+// otherwise; the second train of the project here, so a number is 2.
+func TestTrainInACombinationIsNamed(t *testing.T) {
+	for _, c := range []struct{ name, want, not string }{
+		{"pair", `moving load train "pair"`, "train 2"},
+		{"", "moving load train 2", `train ""`},
+	} {
+		p, err := storage.Load("../../testdata/two_span_cases.json")
+		if err != nil {
+			t.Fatal(err)
+		}
+		p.Trains = []moving.Train{{Name: "other", Axles: []moving.Axle{{Load: 1e3}}},
+			{Name: c.name, Axles: []moving.Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}}}
+		p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 1, Factor: 1.5}}
+		src, err := Analyse(context.Background(), p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		found := false
+		for _, f := range src.Findings {
+			if f.Code != analysis.CodeTrainNotChecked || !strings.Contains(f.Name, "combination") {
+				continue
+			}
+			found = true
+			if !strings.Contains(f.Name, c.want) || !strings.Contains(f.Message, c.want) || strings.Contains(f.Name+f.Message, c.not) {
+				t.Errorf("train named %q: caution %q: %q, want it named %q", c.name, f.Name, f.Message, c.want)
+			}
+		}
+		if !found {
+			t.Errorf("train named %q: no caution says the combination's checks leave it out", c.name)
+		}
+	}
+}

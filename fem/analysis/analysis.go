@@ -33,6 +33,10 @@ type Request struct {
 	Checks check.Options
 	// Show is what to show of a model with load cases (cases.go).
 	Show Show
+	// TrainLabels name the project's moving load trains, by index, as
+	// moving.Train.Label does, for the findings on the combinations that
+	// take them (fem.Combination.Trains); nil names them by number.
+	TrainLabels []string
 }
 
 // Analysis is what the stages found for one model.
@@ -56,6 +60,8 @@ type Analysis struct {
 	// Units are the display units of the findings' messages (the checks'
 	// Options.Units; SI when they name none).
 	Units units.System
+	// TrainLabels are the request's (Request.TrainLabels).
+	TrainLabels []string
 	// summary is what Finish's walk gathered for Summary; shared by the
 	// copies of a, never changed.
 	summary *fem.Summary
@@ -68,7 +74,7 @@ func Solve(ctx context.Context, r Request) (Analysis, error) {
 	if err := ctx.Err(); err != nil {
 		return Analysis{}, err
 	}
-	a := Analysis{Model: r.Model, Nodes: r.Nodes, Units: r.Checks.Units}
+	a := Analysis{Model: r.Model, Nodes: r.Nodes, Units: r.Checks.Units, TrainLabels: r.TrainLabels}
 	if a.Units.Name == "" {
 		a.Units = units.SI
 	}

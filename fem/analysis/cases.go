@@ -253,11 +253,12 @@ func (c *Cases) finish(a *Analysis, opts check.Options) {
 		c.Summaries = append(c.Summaries, z.Summary())
 		per[k] = p.Results(z.Comparison(), opts)
 	}
-	if c.Show.Kind == ShowCombination {
-		// The combination shown alone: its results are with every span
-		// loaded, its checks from the worst arrangement, as the
-		// envelope's are, named where that is not every span loaded.
-		checks, words := c.patterned(a, c.Show.Index, slices.Clone(a.Checks), opts)
+	if arranged, k := c.arranger(a); arranged != nil {
+		// The combination, or the case placed by span, shown alone: its
+		// results are with every span loaded, its checks from the worst
+		// arrangement, as the envelope's are, named where that is not
+		// every span loaded.
+		checks, words := arranged.patterned(a, k, slices.Clone(a.Checks), opts)
 		for i, w := range words {
 			if w != "" {
 				checks[i].Name += " (" + w + ")"
@@ -297,6 +298,38 @@ func (c *Cases) finish(a *Analysis, opts check.Options) {
 		a.Checks = append(a.Checks, best)
 		c.Governing = append(c.Governing, by)
 	}
+}
+
+// arranger is what arranges the spans loaded for the checks of what c
+// shows alone, with the index of its combination there: c itself for a
+// combination; for a case placed by span, the analysis of a model whose
+// one combination is the case at factor 1, since by_span says its load may
+// stand on any of the spans (docs/format.md, pattern loading) whether it is
+// shown alone or combined. Nil for anything else, and for a case that
+// model cannot solve (its checks then stay those of every span loaded).
+func (c *Cases) arranger(a *Analysis) (*Cases, int) {
+	s := c.Show
+	switch {
+	case s.Kind == ShowCombination:
+		return c, s.Index
+	case s.Kind != ShowCase || s.Index < 0 || s.Index >= len(a.Model.Cases) || !a.Model.Cases[s.Index].BySpan:
+		return nil, 0
+	}
+	m := a.Model.Clone()
+	m.Combinations = []fem.Combination{{Name: m.Cases[s.Index].Name, Kind: fem.OtherCombination,
+		Factors: []fem.CaseFactor{{Case: s.Index, Factor: 1}}}}
+	p, err := fem.Prepare(&m)
+	if err != nil {
+		return nil, 0
+	}
+	sols, err := p.SolveCombinations(c.mesh)
+	if err != nil {
+		return nil, 0
+	}
+	if c.Solutions.FixedExact != nil && sols.SolveExact(p) != nil {
+		return nil, 0 // the exact solutions of the model's own solved, this one's must too
+	}
+	return &Cases{Show: c.Show, Combinations: m.EnvelopeCombinations(), Solutions: sols, member: p, mesh: c.mesh, alone: &caseSolver{}}, 0
 }
 
 // checkNames are the names of every combination's checks, once each, in

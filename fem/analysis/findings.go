@@ -11,6 +11,7 @@ import (
 	"stave/fem"
 	"stave/fem/check"
 	"stave/fem/material"
+	"stave/fem/moving"
 	"stave/fem/units"
 )
 
@@ -125,8 +126,9 @@ func (a *Analysis) Findings() []Finding {
 	}
 	for _, cb := range a.Model.Combinations {
 		for _, tf := range cb.Trains {
-			out = append(out, finding(CodeTrainNotChecked, fmt.Sprintf("combination %q with moving load train %d", cb.Name, tf.Train+1),
-				fmt.Sprintf("Combination %q takes moving load train %d with a factor of %s. The design checks and the drawn envelope take the combination's cases alone; the combination with the train at its worst positions is in the trains' results (stave solve, stave influence --envelope). Check those values against your limits.", cb.Name, tf.Train+1, units.FormatNumber(tf.Factor))))
+			train := a.trainLabel(tf.Train)
+			out = append(out, finding(CodeTrainNotChecked, fmt.Sprintf("combination %q with moving load %s", cb.Name, train),
+				fmt.Sprintf("Combination %q takes moving load %s with a factor of %s. The design checks and the drawn envelope take the combination's cases alone; the combination with the train at its worst positions is in the trains' results (stave solve, stave influence --envelope). Check those values against your limits.", cb.Name, train, units.FormatNumber(tf.Factor))))
 		}
 	}
 	if msg := a.Exact.Warning(); msg != "" {
@@ -526,4 +528,13 @@ func (a *Analysis) HandbookText(u units.System) string {
 		}
 	}
 	return b.String()
+}
+
+// trainLabel names the project's train i as moving.Train.Label does: by
+// the request's label, or by its number when the request gave none.
+func (a *Analysis) trainLabel(i int) string {
+	if i >= 0 && i < len(a.TrainLabels) {
+		return a.TrainLabels[i]
+	}
+	return (&moving.Train{}).Label(i)
 }

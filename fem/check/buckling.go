@@ -242,8 +242,9 @@ func bucklingChecks(p *Probe, o Options) []Result {
 		if utilisation > 1 {
 			r.Status = Fail
 		}
+		figures := LimitFigures(o.Units, units.Force, compression, r.Limit)
 		r.Message = fmt.Sprintf("Utilisation %s: the largest compression %s at x = %s, from %s, against the Euler load π²EI/(KL)² = %s, with K = %.3g (recommended design value; theoretical K = %.3g gives %s) for %s; source: %s. %s",
-			UtilisationText(utilisation), force, o.Units.Format(units.Position, where), p.fromWhat(), o.Units.Format(units.Force, r.Limit),
+			UtilisationText(utilisation), o.Units.FormatFigures(units.Force, compression, figures), o.Units.Format(units.Position, where), p.fromWhat(), o.Units.FormatFigures(units.Force, r.Limit, figures),
 			c.factor.Design, c.factor.Theoretical, o.Units.Format(units.Force, theoretical), c.note, c.factor.Source,
 			p.feBeside(o, units.Force, compression, p.fe.compression[k]))
 		if compression-h.least[k] > 1e-6*compression {

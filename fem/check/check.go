@@ -529,6 +529,28 @@ func (p *Probe) feBeside(o Options, k units.Kind, value float64, fe peak) string
 		o.Units.Format(k, fe.value), o.Units.Format(units.Position, fe.x), o.Units.Format(k, fe.value-value), diff)
 }
 
+// LimitFigures is the number of significant figures to print a checked
+// value and its limit with, both of kind k in units u: the four of
+// units.System.Format, or, for a value above its limit (a failed check)
+// that four figures print alike or below it, as many more as show it
+// above, so "11.11 mm" never stands beside a limit of "11.11 mm" and
+// "fail" (a utilisation of 1.0001); as UtilisationText never prints a
+// failure as 1.00.
+func LimitFigures(u units.System, k units.Kind, value, limit float64) int {
+	const four, most = 4, 17
+	figures := four
+	for ; value > limit && figures < most; figures++ {
+		shown := func(v float64) float64 {
+			x, _ := strconv.ParseFloat(units.FormatNumberFigures(u.ToDisplay(k, v), figures), 64)
+			return x
+		}
+		if shown(value) > shown(limit) {
+			break
+		}
+	}
+	return figures
+}
+
 // UtilisationText writes a utilisation (the checked value over its limit,
 // failing above 1) to two decimals, or to three figures from a million up,
 // where the decimals would run to hundreds of digits (a safety factor of

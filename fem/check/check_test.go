@@ -6,6 +6,7 @@ import (
 	"testing"
 
 	"stave/fem"
+	"stave/fem/units"
 )
 
 // beam builds a one-segment member of a 100 × 200 mm rectangle in a steel
@@ -504,6 +505,68 @@ func TestUtilisationTextKeepsTheSideOfOne(t *testing.T) {
 	} {
 		if got := UtilisationText(c.u); got != c.want {
 			t.Errorf("UtilisationText(%v) = %q, want %q", c.u, got, c.want)
+		}
+	}
+}
+
+// A failed check never prints its value equal to its limit: 0.01 % over
+// the limit, four figures print both alike ("11.11 mm" beside a limit of
+// 11.11 mm, and fail), so both get as many more figures as show the value
+// above its limit, as UtilisationText keeps a failure above 1.00. The beam
+// of TestHandComputedUtilisation (simply supported, 4 m, −20 kN at
+// midspan: δ = PL³/48EI = 2.000 mm and σ = PL/4 over bh²/6 = 30.00 MPa,
+// Roark's Table 8.1 case 1e, from memory) with limits set 1.0001 times
+// under those, and the pinned–pinned 3 m column of TestEulerBuckling
+// under 1.0001 times its Euler load π²EI/L² = 14 621.6 kN (Euler's
+// formula, from memory).
+func TestFailedValueExceedsItsLimitInPrint(t *testing.T) {
+	const over = 1.0001
+	simple := []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}}
+	bent := beam(4, simple, 30e6/over)
+	bent.PointLoads = []fem.PointLoad{{X: 2, Transverse: -20e3}}
+	column := beam(3, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 3, Kind: fem.Roller}}, 0)
+	euler := math.Pi * math.Pi * 200e9 * (0.1 * 0.008 / 12) / 9
+	column.PointLoads = []fem.PointLoad{{X: 3, Axial: -over * euler}}
+	for _, c := range []struct {
+		name        string
+		m           fem.Model
+		opts        Options
+		check       string
+		value, want string // the value's and the limit's text
+	}{
+		{"deflection", bent, Options{SpanRatio: 4 * over / 2e-3}, "Deflection, span", "is 2.0000 mm", "= 1.9998 mm"},
+		{"stress", bent, Options{SafetyFactor: 1}, "Stress", "is 30.000 MPa", "= 29.997 MPa"},
+		{"allowable", bent, Options{SafetyFactor: 1}, "Stress", "is 30.000 MPa", "the allowable 29.997 MPa"},
+		{"buckling", column, Options{}, "Buckling", "compression 14623 kN", "= 14622 kN"},
+	} {
+		s, e := solveBoth(t, &c.m)
+		r := find(t, Run(&c.m, s, e, c.opts), c.check)
+		if r.Status != Fail || !near(r.Value/r.Limit, over, 1e-6) {
+			t.Errorf("%s: %v at utilisation %.6f, want fail at %g", c.name, r.Status, r.Value/r.Limit, over)
+		}
+		if !strings.Contains(r.Message, c.value) || !strings.Contains(r.Message, c.want) {
+			t.Errorf("%s: want %q and %q in %q", c.name, c.value, c.want, r.Message)
+		}
+	}
+}
+
+// LimitFigures keeps four figures unless a value above its limit prints
+// alike or below it; then it takes the fewest that show it above, up to
+// the 17 that tell any two float64 apart (IEEE 754, from memory).
+func TestLimitFigures(t *testing.T) {
+	for _, c := range []struct {
+		value, limit float64
+		want         int
+	}{
+		{0.011112, 4.0 / 360, 5},       // 11.112 mm over 11.111 mm
+		{4.0 / 360, 0.011112, 4},       // passes: four figures whatever they show
+		{0.02, 4.0 / 360, 4},           // 20.00 mm over 11.11 mm
+		{0.0111111111, 0.011111111, 9}, // 11.1111111 over 11.1111110 mm
+		{1 + 0x1p-52, 1, 17},           // the next float64 above 1 m
+		{math.NaN(), 1, 4},
+	} {
+		if got := LimitFigures(units.SI, units.Deflection, c.value, c.limit); got != c.want {
+			t.Errorf("LimitFigures(%v, %v) = %d, want %d", c.value, c.limit, got, c.want)
 		}
 	}
 }

@@ -37,8 +37,10 @@ func stressChecks(p *Probe, o Options) []Result {
 		if utilisation > 1 {
 			r.Status = Fail
 		}
+		figures := LimitFigures(o.Units, units.Stress, r.Value, r.Limit)
+		f := func(v float64) string { return o.Units.FormatFigures(units.Stress, v, figures) }
 		r.Message = fmt.Sprintf("Utilisation %s: the largest combined stress (axial plus bending, worst fibre) is %s at x = %s, from %s; the limit is the allowable %s divided by the safety factor %.3g = %s. %s",
-			UtilisationText(utilisation), stress, at, p.fromWhat(), o.Units.Format(units.Stress, allowable), o.SafetyFactor, o.Units.Format(units.Stress, r.Limit),
+			UtilisationText(utilisation), f(r.Value), at, p.fromWhat(), f(allowable), o.SafetyFactor, f(r.Limit),
 			p.feBeside(o, units.Stress, r.Value, fe))
 		if r.Status == Fail {
 			r.Message += "Above 1 the member is overstressed: a larger section, a stronger material, or less load is needed. "
@@ -167,9 +169,10 @@ func deflectionChecks(p *Probe, o Options) []Result {
 		if st.spring[0] || st.spring[1] {
 			measured = "measured from the line through the supports (settlement not counted) where each spring support stands unloaded, so a spring's give under the loads counts as deflection"
 		}
+		figures := LimitFigures(o.Units, units.Deflection, r.Value, r.Limit)
 		r.Message = fmt.Sprintf("The largest deflection in this %s is %s at x = %s, %s, from %s. The limit %s/%g = %s %s (common practice: span/360 for floors under live load, /240 under total load, length/180 for cantilevers). This deflection comes from every load in the model, self-weight included: compare it with a total-load limit, or model the live load alone for a live-load limit.",
-			kind, o.Units.Format(units.Deflection, r.Value), o.Units.Format(units.Position, r.X), measured, p.fromWhat(),
-			kind, n, o.Units.Format(units.Deflection, r.Limit), choice)
+			kind, o.Units.FormatFigures(units.Deflection, r.Value, figures), o.Units.Format(units.Position, r.X), measured, p.fromWhat(),
+			kind, n, o.Units.FormatFigures(units.Deflection, r.Limit, figures), choice)
 		if st.overhangs {
 			r.Message += " For a cantilever or an overhang the limit uses its own length (length/180 is the common-practice span/360 with the span taken as twice the length), and the deflection includes the tilt of the beam over the support."
 		} else {

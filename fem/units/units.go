@@ -265,7 +265,13 @@ const significantFigures = 4
 // Format shows an SI value of q in display units with four significant
 // figures and the unit symbol, e.g. "-12.50 kN·m".
 func (s System) Format(q Kind, vSI float64) string {
-	return FormatNumber(s.ToDisplay(q, vSI)) + " " + s.Unit(q).Symbol
+	return s.FormatFigures(q, vSI, significantFigures)
+}
+
+// FormatFigures is Format with the given number of significant figures
+// (at least 1), for a value that four figures would not tell from another.
+func (s System) FormatFigures(q Kind, vSI float64, figures int) string {
+	return FormatNumberFigures(s.ToDisplay(q, vSI), figures) + " " + s.Unit(q).Symbol
 }
 
 // Count is n of a noun, its plural with an s: "1 element", "2 elements".
@@ -278,7 +284,12 @@ func Count(n int, noun string) string {
 
 // FormatNumber writes v with four significant figures, in fixed notation
 // between 0.001 and 10⁶ and in exponent notation outside.
-func FormatNumber(v float64) string {
+func FormatNumber(v float64) string { return FormatNumberFigures(v, significantFigures) }
+
+// FormatNumberFigures is FormatNumber with the given number of significant
+// figures (at least 1).
+func FormatNumberFigures(v float64, figures int) string {
+	figures = max(figures, 1)
 	switch {
 	case math.IsNaN(v) || math.IsInf(v, 0):
 		return strconv.FormatFloat(v, 'g', -1, 64)
@@ -286,12 +297,12 @@ func FormatNumber(v float64) string {
 		return "0"
 	}
 	// Round first so 9.9996 becomes 10.00, not 9.9996 printed as "10.000".
-	rounded, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'e', significantFigures-1, 64), 64)
+	rounded, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'e', figures-1, 64), 64)
 	exponent := int(math.Floor(math.Log10(math.Abs(rounded))))
 	if exponent < -3 || exponent >= 6 {
-		return strconv.FormatFloat(rounded, 'e', significantFigures-1, 64)
+		return strconv.FormatFloat(rounded, 'e', figures-1, 64)
 	}
-	return strconv.FormatFloat(rounded, 'f', max(significantFigures-1-exponent, 0), 64)
+	return strconv.FormatFloat(rounded, 'f', max(figures-1-exponent, 0), 64)
 }
 
 // Parse reads text typed for a value of q and returns it in SI. A plain
