@@ -265,6 +265,9 @@ func (c *Cases) finish(a *Analysis, opts check.Options) {
 			}
 		}
 		a.Checks = checks
+		if c.Show.Kind == ShowCombination {
+			c.notJudged(a.Checks, k)
+		}
 		return
 	}
 	if c.Show.Kind != ShowEnvelope || len(c.Summaries) != len(c.Combinations) {
@@ -658,6 +661,27 @@ func (c *Cases) shownCombination() int {
 		return c.Show.Index
 	}
 	return -1
+}
+
+// notJudged turns the design checks of combination k, shown alone, that
+// the envelope takes from combinations of another kind (judges) into
+// information: a deflection under factored strength loads, or a stress
+// under serviceability loads, is no check of the member, and failing it
+// would say the member fails what it is never held to.
+func (c *Cases) notJudged(checks []check.Result, k int) {
+	for i := range checks {
+		r := &checks[i]
+		if r.Status == check.Info || c.judges(*r, k) {
+			continue
+		}
+		kind := "strength"
+		if r.Code == check.CodeDeflection {
+			kind = "serviceability"
+		}
+		r.Status = check.Info
+		r.Message = fmt.Sprintf("Not judged under %q, a %s combination: this model judges it under its %s combinations (the envelope takes it from them). %s",
+			c.Combinations[k].Name, c.Combinations[k].Kind, kind, r.Message)
+	}
 }
 
 // judges reports whether combination k is of the kind that judges check

@@ -512,6 +512,59 @@ func TestShownCombinationChecksTakePatternLoading(t *testing.T) {
 	}
 }
 
+// A combination shown alone judges only what combinations of its kind
+// judge in the envelope: three equal spans of 4 m, EI = 4e6 N·m², the
+// permanent 6 kN/m everywhere and the imposed 10 kN/m on the end spans,
+// factored 1.35 and 1.5 under "strength", deflect 13.07 mm in an end span
+// (0.0069·wL⁴/EI for all spans loaded plus 0.0099·wL⁴/EI for the end spans
+// alone: continuous-beam coefficients, three equal spans, AISC "Beam
+// Diagrams and Formulas", from memory), beyond span/360 = 11.11 mm. The
+// model has a serviceability combination, which judges the deflection (the
+// envelope passes at 8.979 mm), so under "strength" the deflection is
+// information, not a failure; under "serviceability" it is checked as
+// before.
+func TestShownCombinationJudgesItsOwnKind(t *testing.T) {
+	const L, EI = 4.0, 4e6
+	m := load(t, "three_span_pattern.json")
+	for _, c := range []struct {
+		name   string
+		judged bool
+		want   float64 // largest deflection of the first span, m
+	}{
+		{"strength", false, (0.0069*1.35*6e3 + 0.0099*1.5*10e3) * L * L * L * L / EI},
+		{"serviceability", true, (0.0069*6e3 + 0.0099*10e3) * L * L * L * L / EI},
+	} {
+		show, ok := ShowNamed(&m, c.name)
+		if !ok {
+			t.Fatalf("nothing named %s", c.name)
+		}
+		a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions(), Show: show})
+		if err != nil || a.Err != nil {
+			t.Fatalf("%s: %v, %v", c.name, err, a.Err)
+		}
+		found := false
+		for _, r := range a.Checks {
+			if r.Code != check.CodeDeflection || r.Span != [2]float64{0, 4} {
+				continue
+			}
+			found = true
+			// The coefficients carry 2 to 3 figures.
+			if math.Abs(math.Abs(r.Value)-c.want) > 0.01*c.want {
+				t.Errorf("%s: %s: %.4g m, want about %.4g m", c.name, r.Name, r.Value, c.want)
+			}
+			if judged := r.Status != check.Info; judged != c.judged {
+				t.Errorf("%s: %s has status %v, judged %v; want judged %v", c.name, r.Name, r.Status, judged, c.judged)
+			}
+			if !c.judged && !strings.Contains(r.Message, "serviceability combinations") {
+				t.Errorf("%s: %s does not say where it is judged: %s", c.name, r.Name, r.Message)
+			}
+		}
+		if !found {
+			t.Errorf("%s: no deflection check of the first span", c.name)
+		}
+	}
+}
+
 // peak is the largest value of f on [lo, hi], a smooth curve with one peak
 // there, by golden-section search.
 func peak(f func(float64) float64, lo, hi float64) float64 {
