@@ -528,12 +528,42 @@ func lookUp(q Kind, symbol string) (Unit, bool) {
 	if strings.HasPrefix(key, "/") {
 		key = "1" + key
 	}
-	for _, u := range append(candidates(q), aliases[q]...) {
+	own := candidates(q)
+	for i, u := range append(own, aliases[q]...) {
 		if normalize(u.Symbol) == key {
+			if i < len(own) && joinsWords(symbol) && !joinsWords(u.Symbol) {
+				// "m m" is no millimetre, nor "k N" a kilonewton: a
+				// product sign typed between two words must be one in
+				// the unit's own symbol too (the spelled variants, such
+				// as "deg F", are read as written).
+				return Unit{}, false
+			}
 			return u, true
 		}
 	}
 	return Unit{}, false
+}
+
+// joinsWords tells whether symbol has a product sign (a space, a dot, a
+// star or a hyphen; see normalize) between two letters, as in "kN m".
+func joinsWords(symbol string) bool {
+	runes := []rune(strings.TrimSpace(symbol))
+	for i := 1; i+1 < len(runes); i++ {
+		switch runes[i] {
+		case ' ', '·', '⋅', '*', '.', '-':
+		default:
+			continue
+		}
+		before := runes[i-1]
+		j := i + 1
+		for j < len(runes) && runes[j] == ' ' {
+			j++
+		}
+		if j < len(runes) && unicode.IsLetter(before) && unicode.IsLetter(runes[j]) {
+			return true
+		}
+	}
+	return false
 }
 
 // singular reads the plurals "kips" and "lbs", standing as words, as kip

@@ -273,6 +273,11 @@ func TestParseErrors(t *testing.T) {
 		// A decimal comma, or a thousands separator, is not a unit.
 		{Position, "1,5", "use a point for decimals, such as 1.5, and no thousands separator; got '1,5'"},
 		{Force, "1,000 kN", "use a point for decimals, such as 1.5, and no thousands separator; got '1,000 kN'"},
+		// A product sign between two words is a product: "m m" is no
+		// millimetre (it read 0.9 m m as 0.9 mm), nor "k N" a kilonewton.
+		{Position, "0.9 m m", "unknown unit 'm m' for a position"},
+		{Force, "3 k N", "unknown unit 'k N' for a force"},
+		{Position, "2 m.m", "unknown unit 'm.m' for a position"},
 	}
 	for _, c := range cases {
 		_, err := SI.Parse(c.q, c.text)
