@@ -604,3 +604,46 @@ func TestAutomaticMeshOnAStiffBed(t *testing.T) {
 		}
 	}
 }
+
+// The exact extremes on a foundation come from sampling each stretch and
+// refining the turns between samples; a turn inside the first or last
+// piece of a stretch, next to a key point, must not be lost to the end
+// value there. On a long beam on an elastic foundation under a point load
+// P the rotation is θ = (P·β²/k)·e^(−βξ)·sin βξ at ξ = x − a right of the
+// load, largest at βξ = π/4: θmax = (P·β²/k)·e^(−π/4)·sin(π/4) (Hetényi,
+// Beams on Elastic Foundation, 1946, the infinite beam, from memory). A
+// segment break (the same section on both sides, so nothing changes) a
+// little past that place puts the turn inside the last piece of the
+// stretch that starts at the load.
+func TestFoundationTurnNextToAKeyPoint(t *testing.T) {
+	ei := testE * testI
+	const k, P = 6.4e6, 80e3
+	beta := math.Sqrt(math.Sqrt(k / (4 * ei)))
+	L := 42 / beta
+	peak := L/2 + math.Pi/(4*beta)
+	for _, past := range []float64{0.002, 0.01, 0.03} { // m past the turn
+		m := groundModel(L, k)
+		m.Segments = []Segment{testSegment(0, peak+past), testSegment(peak+past, L)}
+		m.PointLoads = []PointLoad{{X: L / 2, Transverse: -P}}
+		e, err := SolveExact(m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		want := P * beta * beta / k * math.Exp(-math.Pi/4) * math.Sin(math.Pi/4)
+		best := Point{Value: math.Inf(-1)}
+		for _, v := range e.Intervals() {
+			if _, hi := v.Range(QRotation); hi.Value > best.Value {
+				best = hi
+			}
+		}
+		if relErr(best.Value, want) > 1e-9 || math.Abs(best.X-peak) > 1e-6*L {
+			t.Errorf("break %.3g m past the turn: largest rotation %.10g at x = %.8g, want %.10g at %.8g", past, best.Value, best.X, want, peak)
+		}
+		sum := Summarize(mustSolve(t, m), e)
+		for _, x := range sum.Extremes {
+			if x.Quantity == QRotation && relErr(x.Max, want) > 1e-9 {
+				t.Errorf("break %.3g m past the turn: summary's largest rotation %.10g, want %.10g", past, x.Max, want)
+			}
+		}
+	}
+}
