@@ -79,12 +79,28 @@ const (
 	foundationAlphaStep = 1e-5
 )
 
+// beamStepOffBed is the shortest element, as a share of the member's
+// length, that the automatic mesh puts where every node enters the beam's
+// factorized equations but no bed across the member steadies them: a
+// stretch on a foundation along the member alone (keyNodes takes every
+// node of a stretch on either kind of foundation, for the bar and the beam
+// alike). There the beam's condition grows as the fourth power of the
+// number of elements over the member: a thousand keep round-off near
+// 1e-5, as foundationBetaStep does on a bed, where the bar's rule for its
+// axial force alone would ask for tens of thousands and leave the bending
+// to round-off, or refuse it as singular.
+const beamStepOffBed = 1e-3
+
 // shortestOnFoundation is the shortest element the automatic mesh puts on
-// d's stretch of foundation (0 off a foundation).
-func (d *elementData) shortestOnFoundation() float64 {
+// d's stretch of foundation (0 off a foundation), on a member of the given
+// length whose bending is solved or not.
+func (d *elementData) shortestOnFoundation(length float64, bending bool) float64 {
 	h := 0.0
-	if d.modulus > 0 && d.flexuralRigidity > 0 {
+	switch {
+	case d.modulus > 0 && d.flexuralRigidity > 0:
 		h = foundationBetaStep / math.Sqrt(math.Sqrt(d.modulus/(4*d.flexuralRigidity)))
+	case d.axialModulus > 0 && bending:
+		h = beamStepOffBed * length
 	}
 	if d.axialModulus > 0 && d.axialRigidity > 0 {
 		h = max(h, foundationAlphaStep/math.Sqrt(d.axialModulus/d.axialRigidity))
@@ -118,7 +134,7 @@ func (p *Member) automaticCounts() ([]int, string) {
 			// Half the accuracy: the bounds are estimates.
 			tol := MeshAccuracy / 2
 			h := min(bar.elementLength(&d, &scale, tol), beam.elementLength(&d, &scale, tol))
-			h = max(h, d.shortestOnFoundation())
+			h = max(h, d.shortestOnFoundation(p.model.Length(), p.bending))
 			n[j] = max(n[j], 1)
 			if h < d.length {
 				n[j] = max(n[j], int(min(math.Ceil(d.length/h), maxAutomaticElements)))

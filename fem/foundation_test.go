@@ -647,3 +647,57 @@ func TestFoundationTurnNextToAKeyPoint(t *testing.T) {
 		}
 	}
 }
+
+// A foundation along the member alone (skin friction) puts every node of
+// its stretch into the factorized equations of the beam as well as of the
+// bar (keyNodes), though the beam has no bed there to steady them. The
+// default mesh sizes the bar's elements for its axial force, which changes
+// fast near a loaded end (thousands of elements for αL of 40), and must not
+// let that ruin or refuse the bending. A simply supported beam under a
+// uniform load q keeps R = q·L/2 and M = q·L²/8 at midspan (AISC Steel
+// Construction Manual, Beam Diagrams and Formulas, case 1), whatever holds
+// it along its axis; the bar, pulled by P at its free end, carries N =
+// P·cosh(αx)/cosh(αL), α = (kₐ/EA)^½ (the bar on an elastic axial
+// foundation, as for the pile above, from memory).
+func TestDefaultMeshOnSkinFrictionKeepsTheBeam(t *testing.T) {
+	const L, q, P = 10.0, -10e3, 50e3
+	ea := testE * testA
+	for _, aL := range []float64{40, 200} {
+		t.Run(fmt.Sprintf("αL = %g", aL), func(t *testing.T) {
+			alpha := aL / L
+			m := withUniform(&Model{
+				Segments:    []Segment{testSegment(0, L)},
+				Supports:    []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+				Foundations: []Foundation{{Start: 0, End: L, AxialModulus: alpha * alpha * ea}},
+				PointLoads:  []PointLoad{{X: L, Axial: P}},
+			}, q)
+			s, err := Solve(m)
+			if err != nil {
+				t.Fatalf("default mesh: %v", err)
+			}
+			R := -q * L / 2
+			for i, r := range s.Reactions {
+				if relErr(r.Force[Transverse], R) > 1e-6 {
+					t.Errorf("FE reaction %d: %.10g N, want %.10g", i+1, r.Force[Transverse], R)
+				}
+			}
+			if f := s.At(L/2, Right); relErr(f.BendingMoment, -q*L*L/8) > MeshAccuracy {
+				t.Errorf("FE midspan moment %.8g N·m, want %.8g within %g", f.BendingMoment, -q*L*L/8, MeshAccuracy)
+			}
+			// The ground takes the whole pull in the FE solution too, on
+			// whatever mesh (equilibrium of the element forces).
+			if len(s.Foundations) != 1 || relErr(s.Foundations[0].Force[0], -P) > 1e-9 {
+				t.Errorf("FE skin friction %+v, want %.10g N", s.Foundations, -P)
+			}
+			e, err := SolveExact(m)
+			if err != nil {
+				t.Fatal(err)
+			}
+			for _, x := range []float64{0.9 * L, L} {
+				if f := e.At(x, Left); relErr(f.AxialForce, P*math.Cosh(alpha*x)/math.Cosh(aL)) > 1e-9 {
+					t.Errorf("exact N at x = %g: %.10g, want %.10g", x, f.AxialForce, P*math.Cosh(alpha*x)/math.Cosh(aL))
+				}
+			}
+		})
+	}
+}
