@@ -1,6 +1,7 @@
 package moving
 
 import (
+	"cmp"
 	"errors"
 	"math"
 	"slices"
@@ -615,17 +616,29 @@ func (in *Influence) peaks(s *sweeps, e *Envelope) []float64 {
 // so the worst value stands under an axle, which the stations miss unless
 // one lies there (by up to the shear force times half the gap between
 // stations); a smooth peak (the deflection) lies between stations, which
-// miss it by the curvature times the gap squared. From the worst station
-// Peak climbs: it tries the turn of the parabola through that station and
-// its neighbours (between the neighbouring stations), and the points under
-// the axles of the governing position and of its neighbours on either side
+// miss it by the curvature times the gap squared.
+//
+// The worst value need not lie next to the worst station: where stations
+// tie (a moment of zero over an unloaded overhang) the first of them is no
+// better a start than the last, and a peak under an axle may stand between
+// two stations that both read less than another station elsewhere. So
+// Peak climbs from the worst station and from every other station that
+// turns (is no worse than its neighbours, and not in the middle of a
+// plateau) within the largest difference between neighbouring stations
+// of the worst, the best maxStarts of them, and keeps the best it reaches.
+// Each climb tries the turn of the parabola through its station and the
+// neighbours (between the neighbouring stations), and the points under the
+// axles of the governing position and of its neighbours on either side
 // (wherever they stand: a step may be longer than the gap between
 // stations, and the peaks of two positions lie a step apart), and moves to
-// the best of them while that is worse still. The moment under one axle is
-// a concave function of the position as long as no axle passes a key point
-// or the point itself, so the climb reaches the largest moment of the
-// classic rule (midspan halfway between the axle and the resultant) on the
-// positions of the step.
+// the best of them while that is worse still; then it searches the gap
+// either side of where it stopped by golden section (a smooth turn next to
+// a support, where the field bends differently on either side and the
+// parabola misses it). The moment under one axle is a concave function of
+// the position as long as no axle passes a key point or the point itself,
+// so the climb reaches the largest moment of the classic rule (midspan
+// halfway between the axle and the resultant) on the positions of the
+// step.
 func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (Extreme, bool) {
 	n := len(e.Stations)
 	if n == 0 {
@@ -639,6 +652,80 @@ func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (
 	}
 	scale := e.scale(q)
 	b := e.worstStation(q, upper, scale)
+	best := Extreme{values[b], e.Stations[b], e.Placement(at[b])}
+	if probe != nil {
+		for _, start := range e.climbStarts(values, sign, b) {
+			if ex := e.climb(q, upper, start, probe); fem.BeyondField(sign*ex.Value, sign*best.Value, scale) {
+				best = ex
+			}
+		}
+	}
+	i, _ := slices.BinarySearch(e.Stations, best.X)
+	onStation := i < n && math.Abs(e.Stations[i]-best.X) <= tol || i > 0 && math.Abs(e.Stations[i-1]-best.X) <= tol
+	return best, !onStation
+}
+
+// maxStarts bounds the stations Peak climbs from.
+const maxStarts = 8
+
+// axleReach is how near an axle, relative to the member's length, Peak's
+// search of the gaps leaves the value to the axle's own place.
+const axleReach = 1e-6
+
+// goldenSteps are the steps of Peak's search of the gaps either side of
+// where a climb stops: each narrows the bracket by 0.618, so the place is
+// found to a part in 10⁷ of the two gaps.
+const goldenSteps = 32
+
+// climbStarts are the stations Peak climbs from, in order of their
+// values, worst first (sign·values largest): the worst station b, and the
+// other stations that turn within the largest difference between
+// neighbouring stations of it.
+func (e *Envelope) climbStarts(values []float64, sign float64, b int) []int {
+	n := len(values)
+	margin := 0.0
+	for i := 1; i < n; i++ {
+		margin = max(margin, math.Abs(values[i]-values[i-1]))
+	}
+	starts := []int{b}
+	for i := range n {
+		v := sign * values[i]
+		if i == b || v < sign*values[b]-margin {
+			continue
+		}
+		left, right := i > 0, i < n-1
+		if left && sign*values[i-1] > v || right && sign*values[i+1] > v {
+			continue // not a turn
+		}
+		if left && right && sign*values[i-1] == v && sign*values[i+1] == v {
+			continue // inside a plateau: its ends stand for it
+		}
+		starts = append(starts, i)
+	}
+	slices.SortStableFunc(starts[1:], func(i, j int) int { return cmp.Compare(sign*values[j], sign*values[i]) })
+	return starts[:min(len(starts), maxStarts)]
+}
+
+// climb is Peak's climb from station b (see Peak).
+func (e *Envelope) climb(q int, upper bool, b int, probe func(xs []float64) *Envelope) Extreme {
+	n := len(e.Stations)
+	tol := keyTolerance * (e.Stations[n-1] - e.Stations[0])
+	sign := 1.0
+	values, at := e.Max[q], e.MaxAt[q]
+	if !upper {
+		sign, values, at = -1, e.Min[q], e.MinAt[q]
+	}
+	scale := e.scale(q)
+	read := func(xs []float64) ([]float64, []int32, bool) {
+		p := probe(xs)
+		if p == nil {
+			return nil, nil, false
+		}
+		if upper {
+			return p.Max[q], p.MaxAt[q], true
+		}
+		return p.Min[q], p.MinAt[q], true
+	}
 	lo, hi := e.Stations[max(b-1, 0)]+tol, e.Stations[min(b+1, n-1)]-tol
 	x, pos, v := e.Stations[b], at[b], values[b]
 	for c := range maxClimb {
@@ -652,13 +739,9 @@ func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (
 		if len(cands) == 0 {
 			break
 		}
-		p := probe(cands)
-		if p == nil {
+		pv, pat, ok := read(cands)
+		if !ok {
 			break
-		}
-		pv, pat := p.Max[q], p.MaxAt[q]
-		if !upper {
-			pv, pat = p.Min[q], p.MinAt[q]
 		}
 		best := -1
 		for i := range cands {
@@ -671,7 +754,65 @@ func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (
 		}
 		x, pos, v = cands[best], pat[best], pv[best]
 	}
-	return Extreme{v, x, e.Placement(pos)}, math.Abs(x-e.Stations[b]) > tol
+	// The gaps either side of x, between the stations around it.
+	i, _ := slices.BinarySearch(e.Stations, x)
+	a, z := e.Stations[max(i-1, 0)], e.Stations[min(i+1, n-1)]
+	if i < n && e.Stations[i] > x+tol {
+		z = e.Stations[i]
+	}
+	if z-a > 2*tol {
+		g := func(xx float64) (float64, int32, bool) {
+			pv, pat, ok := read([]float64{xx})
+			if !ok {
+				return 0, 0, false
+			}
+			return pv[0], pat[0], true
+		}
+		// A corner under an axle is the climb's to find, at the axle
+		// itself: the search closing in on one reads the lines a hair to
+		// the wrong side of the axle and would overshoot by the shear
+		// force times that hair.
+		if xg, vg, pg, ok := goldenSearch(g, a, z, sign); ok && fem.BeyondField(sign*vg, sign*v, scale) &&
+			!slices.ContainsFunc(e.underAxles(pg), func(xa float64) bool { return math.Abs(xa-xg) <= axleReach*(e.Stations[n-1]-e.Stations[0]) }) {
+			x, pos, v = xg, pg, vg
+		}
+	}
+	return Extreme{v, x, e.Placement(pos)}
+}
+
+// goldenSearch finds the largest value of sign·g on [a, b] of a function
+// with one turn there by goldenSteps of golden-section search (Kiefer's
+// search, Press et al., Numerical Recipes, 10.2, from memory): the place,
+// the value, the position that gives it, and false when g cannot be read.
+func goldenSearch(g func(float64) (float64, int32, bool), a, b, sign float64) (float64, float64, int32, bool) {
+	const r = 0.6180339887498949 // (√5 − 1)/2
+	c, d := b-r*(b-a), a+r*(b-a)
+	gc, pc, ok1 := g(c)
+	gd, pd, ok2 := g(d)
+	if !ok1 || !ok2 {
+		return 0, 0, 0, false
+	}
+	for range goldenSteps {
+		if sign*gc >= sign*gd {
+			b, d, gd, pd = d, c, gc, pc
+			c = b - r*(b-a)
+			var ok bool
+			if gc, pc, ok = g(c); !ok {
+				return 0, 0, 0, false
+			}
+		} else {
+			a, c, gc, pc = c, d, gd, pd
+			d = a + r*(b-a)
+			var ok bool
+			if gd, pd, ok = g(d); !ok {
+				return 0, 0, 0, false
+			}
+		}
+	}
+	if sign*gc >= sign*gd {
+		return c, gc, pc, true
+	}
+	return d, gd, pd, true
 }
 
 // vertex is where the parabola through three points (x[i], v[i]) turns,
