@@ -127,7 +127,10 @@ const (
 // sampledRange finds the extremes of g on [0, 1] from its values sample(i)
 // at i/n, i = 0…n: the ends, and every sample that is a turn of the
 // samples, refined by steps of golden-section search between its
-// neighbours. The first place along the interval wins a tie.
+// neighbours. An end sample that is no less (for the largest value) or no
+// more (for the smallest) than its neighbour may hide a turn inside its
+// piece, just short of the end: that piece is searched too (endTurns). The
+// first place along the interval wins a tie.
 func sampledRange(n int, sample func(i int) float64, g func(xi float64) float64, steps int) (lo, hi extremum) {
 	first := sample(0)
 	lo, hi = extremum{0, first}, extremum{0, first}
@@ -159,7 +162,29 @@ func sampledRange(n int, sample func(i int) float64, g func(xi float64) float64,
 	}
 	lo.least(1, here)
 	hi.most(1, here)
+	endTurns(g, 0, 1/float64(n), first, sample(1), steps, &lo, &hi)
+	endTurns(g, 1, float64(n-1)/float64(n), here, prev, steps, &lo, &hi)
 	return lo, hi
+}
+
+// endTurns searches the piece of g between the end of an interval at e
+// (value ge) and the neighbouring sample at a (value ga) for a turn that
+// the samples cannot show: where the end is no less than its neighbour
+// the largest value may lie inside the piece, and where it is no more the
+// smallest. Golden-section search over the piece finds such a turn, or
+// closes in on the end where there is none, whose own value then stands.
+func endTurns(g func(float64) float64, e, a, ge, ga float64, steps int, lo, hi *extremum) {
+	l, r := min(a, e), max(a, e)
+	if ge >= ga {
+		if x, y := goldenSection(g, l, r, 1, steps); y > ge {
+			hi.most(x, y)
+		}
+	}
+	if ge <= ga {
+		if x, y := goldenSection(g, l, r, -1, steps); y < ge {
+			lo.least(x, y)
+		}
+	}
 }
 
 // goldenSection finds the largest value of sign·g on [a, b] of a function

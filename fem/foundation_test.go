@@ -877,3 +877,100 @@ func withinMeshAccuracy(t *testing.T, label string, s *Solution, e *Exact) {
 		}
 	}
 }
+
+// The exact extremes on a foundation come from sampling each stretch and
+// refining the turns between samples; a turn inside the first or last
+// piece of a stretch, next to a key point, must not be lost to the end
+// value there. On a long beam on an elastic foundation under a point load
+// P the rotation is θ = (P·β²/k)·e^(−βξ)·sin βξ at ξ = x − a right of the
+// load, largest at βξ = π/4: θmax = (P·β²/k)·e^(−π/4)·sin(π/4) (Hetényi,
+// Beams on Elastic Foundation, 1946, the infinite beam, from memory). A
+// segment break (the same section on both sides, so nothing changes) a
+// little past that place puts the turn inside the last piece of the
+// stretch that starts at the load.
+func TestFoundationTurnNextToAKeyPoint(t *testing.T) {
+	ei := testE * testI
+	const k, P = 6.4e6, 80e3
+	beta := math.Sqrt(math.Sqrt(k / (4 * ei)))
+	L := 42 / beta
+	peak := L/2 + math.Pi/(4*beta)
+	for _, past := range []float64{0.002, 0.01, 0.03} { // m past the turn
+		m := groundModel(L, k)
+		m.Segments = []Segment{testSegment(0, peak+past), testSegment(peak+past, L)}
+		m.PointLoads = []PointLoad{{X: L / 2, Transverse: -P}}
+		e, err := SolveExact(m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		want := P * beta * beta / k * math.Exp(-math.Pi/4) * math.Sin(math.Pi/4)
+		best := Point{Value: math.Inf(-1)}
+		for _, v := range e.Intervals() {
+			if _, hi := v.Range(QRotation); hi.Value > best.Value {
+				best = hi
+			}
+		}
+		if relErr(best.Value, want) > 1e-9 || math.Abs(best.X-peak) > 1e-6*L {
+			t.Errorf("break %.3g m past the turn: largest rotation %.10g at x = %.8g, want %.10g at %.8g", past, best.Value, best.X, want, peak)
+		}
+		sum := Summarize(mustSolve(t, m), e)
+		for _, x := range sum.Extremes {
+			if x.Quantity == QRotation && relErr(x.Max, want) > 1e-9 {
+				t.Errorf("break %.3g m past the turn: summary's largest rotation %.10g, want %.10g", past, x.Max, want)
+			}
+		}
+	}
+}
+
+// A foundation along the member alone (skin friction) puts every node of
+// its stretch into the factorized equations of the beam as well as of the
+// bar (keyNodes), though the beam has no bed there to steady them. The
+// default mesh sizes the bar's elements for its axial force, which changes
+// fast near a loaded end (thousands of elements for αL of 40), and must not
+// let that ruin or refuse the bending. A simply supported beam under a
+// uniform load q keeps R = q·L/2 and M = q·L²/8 at midspan (AISC Steel
+// Construction Manual, Beam Diagrams and Formulas, case 1), whatever holds
+// it along its axis; the bar, pulled by P at its free end, carries N =
+// P·cosh(αx)/cosh(αL), α = (kₐ/EA)^½ (the bar on an elastic axial
+// foundation, as for the pile above, from memory).
+func TestDefaultMeshOnSkinFrictionKeepsTheBeam(t *testing.T) {
+	const L, q, P = 10.0, -10e3, 50e3
+	ea := testE * testA
+	for _, aL := range []float64{40, 200} {
+		t.Run(fmt.Sprintf("αL = %g", aL), func(t *testing.T) {
+			alpha := aL / L
+			m := withUniform(&Model{
+				Segments:    []Segment{testSegment(0, L)},
+				Supports:    []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+				Foundations: []Foundation{{Start: 0, End: L, AxialModulus: alpha * alpha * ea}},
+				PointLoads:  []PointLoad{{X: L, Axial: P}},
+			}, q)
+			s, err := Solve(m)
+			if err != nil {
+				t.Fatalf("default mesh: %v", err)
+			}
+			R := -q * L / 2
+			for i, r := range s.Reactions {
+				if relErr(r.Force[Transverse], R) > 1e-6 {
+					t.Errorf("FE reaction %d: %.10g N, want %.10g", i+1, r.Force[Transverse], R)
+				}
+			}
+			if f := s.At(L/2, Right); relErr(f.BendingMoment, -q*L*L/8) > MeshAccuracy {
+				t.Errorf("FE midspan moment %.8g N·m, want %.8g within %g", f.BendingMoment, -q*L*L/8, MeshAccuracy)
+			}
+			// The ground takes the whole pull in the FE solution too, on
+			// whatever mesh (equilibrium of the element forces).
+			if len(s.Foundations) != 1 || relErr(s.Foundations[0].Force[0], -P) > 1e-9 {
+				t.Errorf("FE skin friction %+v, want %.10g N", s.Foundations, -P)
+			}
+			e, err := SolveExact(m)
+			if err != nil {
+				t.Fatal(err)
+			}
+			for _, x := range []float64{0.9 * L, L} {
+				if f := e.At(x, Left); relErr(f.AxialForce, P*math.Cosh(alpha*x)/math.Cosh(aL)) > 1e-9 {
+					t.Errorf("exact N at x = %g: %.10g, want %.10g", x, f.AxialForce, P*math.Cosh(alpha*x)/math.Cosh(aL))
+				}
+			}
+		})
+	}
+}

@@ -561,3 +561,62 @@ func TestTrainWorstZeroIsNotRoundOff(t *testing.T) {
 		t.Errorf("Peak of the smallest moment: %g at x = %g (moved %v), want 0 at x = 0", ex.Value, ex.X, moved)
 	}
 }
+
+// The worst value of a train can lie off the stations, far from the worst
+// station: beside a support where the stations tie, or at a turn within a
+// station's gap of a support, where the field bends differently on either
+// side. Beam diagrams and formulas (AISC Steel Construction Manual, from
+// memory), superposed: simple beam, concentrated load at any point, M =
+// P·a·b/l; beam overhanging one support, concentrated load at the end of
+// the overhang, M = −P·c·x/l between the supports; the rotation by
+// integrating M/EI from the left support, whose rotation makes the
+// deflection zero at the right one (double integration, Gere & Goodno,
+// Mechanics of Materials, ch. 9, from memory).
+func TestWorstOffTheWorstStation(t *testing.T) {
+	const EI = 200e9 * 8e-5
+	// Supports at 7.889 m and 8.989 m on 10.5 m; 48 kN and 18 kN 2.6 m
+	// apart moving backward over the whole member. The moment is never
+	// sagging over the overhang on the left (its stations tie at zero, the
+	// first at x = 0), and sagging only under the 48 kN axle at the last
+	// position, 11 mm past the support (the 18 kN axle at the tip), between
+	// two stations: M = 48 kN·a·(l − a)/l − 18 kN·c·a/l, l = 1.1 m, c =
+	// 1.511 m, a = 0.011 m.
+	const a, l, c = 0.011, 1.1, 1.511
+	momentTrain := Train{Axles: []Axle{{Load: 48e3}, {Load: 18e3, Spacing: 2.6}}, Direction: Backward, Step: 0.1}
+	wantM := 48e3*a*(l-a)/l - 18e3*c*a/l
+	// Supports at 0 and 6 m on 8 m, Q = 100 kN at 2 m and P at the tip
+	// such that the moment changes sign at x0 = 6·Q/(Q + P) = 5.994 m, 6
+	// mm short of the support (stations every 20 mm): the rotation turns
+	// there, largest. The train fits its run in one position.
+	const Q, L, x0 = 100e3, 6.0, 5.994
+	P := Q * (L - x0) / x0
+	R0 := Q*(L-2)/L - P*2/L
+	theta0 := -(R0*L*L*L/6 - Q*(L-2)*(L-2)*(L-2)/6) / L / EI
+	wantTheta := theta0 + (R0*x0*x0/2-Q*(x0-2)*(x0-2)/2)/EI
+	rotationTrain := Train{Axles: []Axle{{Load: P}, {Load: Q, Spacing: 6}}, From: 2, To: 8, Direction: Forward}
+	for _, cse := range []struct {
+		name  string
+		m     *fem.Model
+		train Train
+		q     fem.Quantity
+		want  float64
+		at    float64
+	}{
+		{"sagging moment under an axle beside a support", beam(10.5, fem.Support{X: 7.889, Kind: fem.Pinned}, fem.Support{X: 8.989, Kind: fem.Roller}),
+			momentTrain, fem.QBendingMoment, wantM, 7.889 + a},
+		{"rotation turning 6 mm short of a support", beam(8, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: L, Kind: fem.Roller}),
+			rotationTrain, fem.QRotation, wantTheta, x0},
+	} {
+		t.Run(cse.name, func(t *testing.T) {
+			p, in := prepared(t, cse.m)
+			e, err := in.Envelope(&cse.train, p.Mesh(), nil)
+			if err != nil {
+				t.Fatal(err)
+			}
+			hi, _ := e.Worst(cse.q)
+			if !near(hi.Value, cse.want, 1e-9*math.Abs(cse.want)) || math.Abs(hi.X-cse.at) > 1e-4 {
+				t.Errorf("largest %v %.12g at x = %.9g, want %.12g at %.9g", cse.q, hi.Value, hi.X, cse.want, cse.at)
+			}
+		})
+	}
+}
