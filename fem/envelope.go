@@ -623,11 +623,11 @@ func zeroRoundOff(qs []QuantityEnvelope, sets []*Solution) {
 	for _, q := range qs {
 		largest[q.Quantity] = max(math.Abs(q.Max.Value), math.Abs(q.Min.Value))
 	}
-	var floor [3]float64
+	var floor floorSizes
 	for _, s := range sets {
 		f := forceFloor(s)
-		for k := range floor {
-			floor[k] = max(floor[k], f[k])
+		for k := range 3 {
+			floor.all[k], floor.axial[k] = max(floor.all[k], f.all[k]), max(floor.axial[k], f.axial[k])
 		}
 	}
 	L := sets[0].Model.Length()
@@ -775,7 +775,7 @@ func (w *envelopeWalk) governing(p *envelopePoint, i int, upper bool) Governing 
 // share's own forces (forceFloor: its loads, reactions and imposed
 // deformations), in the unit of value i.
 func shareTolerance(s *Solution, i int) float64 {
-	floor := forceFloor(s)
+	floor := forceFloor(s).all
 	L := s.Model.Length()
 	size := floor[1] // the stresses, and the fibres' after the quantities
 	if i < polynomialQuantities {
@@ -812,7 +812,7 @@ func shareTolerances(shares []*Solution) [][envelopeValues]float64 {
 func (cs *CombinationSolutions) reactionEnvelope() []ReactionEnvelope {
 	force := 0.0
 	for _, s := range slices.Concat(cs.Fixed, cs.Shares) {
-		force = max(force, forceFloor(s)[0])
+		force = max(force, forceFloor(s).all[0])
 	}
 	L := cs.Fixed[0].Model.Length()
 	out := make([]ReactionEnvelope, len(cs.Fixed[0].Reactions))

@@ -307,7 +307,7 @@ func exactExtremes(e *Exact) *extremes {
 
 // withExact makes the exact extremes ex the headline values of list and
 // measures the finite element ones against them.
-func withExact(list []Extreme, ex *extremes, L float64, floor [3]float64) {
+func withExact(list []Extreme, ex *extremes, L float64, floor floorSizes) {
 	exact := ex.list()
 	var largest [quantityCount]float64
 	for i, e := range exact {
@@ -330,6 +330,11 @@ func withExact(list []Extreme, ex *extremes, L float64, floor [3]float64) {
 	}
 }
 
+// floorSizes are the sizes forceFloor finds, each a force (N), a stress
+// (Pa) and a displacement (m): of the whole model, and of its axial
+// problem alone (the forces along the member and what they stretch).
+type floorSizes struct{ all, axial [3]float64 }
+
 // forceFloor is the size the internal forces of s's model are at least
 // measured against, N, its stresses, Pa, and its displacements, m: the
 // loads applied and the supports' actions (each, not their sum), and the
@@ -341,8 +346,9 @@ func withExact(list []Extreme, ex *extremes, L float64, floor [3]float64) {
 // member only stretch it and those across it and the moments only bend it
 // (linear theory), so each sets only its own share of the stress and the
 // displacement: a large axial force does not make a real deflection beside
-// it round-off.
-func forceFloor(s *Solution) [3]float64 {
+// it round-off. The axial sizes are those of the forces along the member
+// alone.
+func forceFloor(s *Solution) floorSizes {
 	m := &s.Model
 	L := m.Length()
 	axial, across, moment := m.imposedScales()
@@ -358,16 +364,19 @@ func forceFloor(s *Solution) [3]float64 {
 	if L > 0 {
 		across = max(across, moment/L)
 	}
-	stress, displacement := 0.0, 0.0
+	var f floorSizes
+	f.all[0], f.axial[0] = max(axial, across), axial
 	for _, sg := range m.Segments {
 		if sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
-			stress = max(stress, axial/sg.Section.Area, across*L*sg.Section.FibreDistance/sg.Section.SecondMoment)
+			f.axial[1] = max(f.axial[1], axial/sg.Section.Area)
+			f.all[1] = max(f.all[1], f.axial[1], across*L*sg.Section.FibreDistance/sg.Section.SecondMoment)
 		}
 		if e := sg.Material.Elastic; e > 0 && sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
-			displacement = max(displacement, axial*L/(e*sg.Section.Area), across*L*L*L/(e*sg.Section.SecondMoment))
+			f.axial[2] = max(f.axial[2], axial*L/(e*sg.Section.Area))
+			f.all[2] = max(f.all[2], f.axial[2], across*L*L*L/(e*sg.Section.SecondMoment))
 		}
 	}
-	return [3]float64{max(axial, across), stress, displacement}
+	return f
 }
 
 // fieldScale is the size quantity q is measured against: its largest
@@ -382,23 +391,39 @@ func forceFloor(s *Solution) [3]float64 {
 // determinate beam warmer below) every internal force is round-off, and
 // where they are wholly restrained (a fixed-ended beam warmer below) every
 // displacement is; each is measured against the size the loads would
-// give, not against itself.
-func fieldScale(q Quantity, largest *[quantityCount]float64, L float64, floor [3]float64) float64 {
+// give, not against itself. Where the member has forces along it, its
+// axial displacement, force and stress are their own problem's (linear
+// theory): they are measured against what those forces make, not against
+// the bending beside them, so that a real stretch of a few micrometres
+// under a small pull is not read as round-off beside a deflection of tens
+// of millimetres.
+func fieldScale(q Quantity, largest *[quantityCount]float64, L float64, floor floorSizes) float64 {
 	own := largest[q]
 	var kind float64 // the size of q's kind, in q's unit
+	k := -1          // which of the axial problem's sizes q is of, if it is
 	switch q {
-	case QAxialDisplacement, QDeflection, QRotation:
-		kind = max(largest[QAxialDisplacement], largest[QDeflection], largest[QRotation]*L, floor[2])
+	case QAxialForce:
+		k = 0
+	case QAxialStress:
+		k = 1
+	case QAxialDisplacement:
+		k = 2
+	}
+	switch {
+	case k >= 0 && floor.axial[k] > 0:
+		kind = max(own, floor.axial[k])
+	case q == QAxialDisplacement || q == QDeflection || q == QRotation:
+		kind = max(largest[QAxialDisplacement], largest[QDeflection], largest[QRotation]*L, floor.all[2])
 		if q == QRotation {
 			kind /= L
 		}
-	case QAxialForce, QShearForce, QBendingMoment:
-		kind = max(largest[QAxialForce], largest[QShearForce], largest[QBendingMoment]/L, floor[0])
+	case q == QAxialForce || q == QShearForce || q == QBendingMoment:
+		kind = max(largest[QAxialForce], largest[QShearForce], largest[QBendingMoment]/L, floor.all[0])
 		if q == QBendingMoment {
 			kind *= L
 		}
 	default:
-		kind = max(largest[QAxialStress], largest[QBendingStress], largest[QCombinedStress], floor[1])
+		kind = max(largest[QAxialStress], largest[QBendingStress], largest[QCombinedStress], floor.all[1])
 	}
 	if own > negligible*kind {
 		return own
