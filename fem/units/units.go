@@ -519,10 +519,33 @@ func lookUp(q Kind, symbol string) (Unit, bool) {
 	}
 	for _, u := range append(candidates(q), aliases[q]...) {
 		if normalize(u.Symbol) == key {
+			if !strings.ContainsAny(u.Symbol, productMarks) && apart(symbol) {
+				return Unit{}, false // "m m" is m·m, not mm
+			}
 			return u, true
 		}
 	}
 	return Unit{}, false
+}
+
+// productMarks are what normalize drops between the units of a product.
+const productMarks = "·⋅*. -"
+
+// apart tells whether symbol is units typed apart, "m m" or "m*m": their
+// product, which normalize joins into the symbol of another unit (mm). A
+// part that is no unit of its own keeps the whole one symbol: "deg F",
+// "k N".
+func apart(symbol string) bool {
+	parts := strings.FieldsFunc(symbol, func(r rune) bool { return strings.ContainsRune(productMarks, r) })
+	if len(parts) < 2 {
+		return false
+	}
+	for _, p := range parts {
+		if _, ok := kindOf(p); !ok {
+			return false
+		}
+	}
+	return true
 }
 
 // singular reads the plurals "kips" and "lbs", standing as words, as kip

@@ -487,6 +487,12 @@ func TestParseUSSpellingsRefused(t *testing.T) {
 		{Position, `12' 3 1/2"`, "fractions are not read; type a decimal, such as 3.5 for 3 1/2"},
 		{Dimension, `1/2"`, "fractions are not read"},
 		{Position, "12 -ft", "unknown unit '-ft' for a position"},
+		// Units typed apart are their product (as in "kN m"), which no unit
+		// of one symbol is: "2 m m" read as 2 mm, a thousandth of it.
+		{Position, "2 m m", "unknown unit 'm m' for a position"},
+		{Position, "2 m*m", "unknown unit 'm*m' for a position"},
+		{Dimension, "2 m.m", "unknown unit 'm.m' for a section dimension"},
+		{Area, "2 m·m", "unknown unit 'm·m' for an area"},
 		{Position, "12 ft 3", "unknown unit 'ft 3' for a position"},
 	}
 	for _, c := range cases {
