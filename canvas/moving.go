@@ -294,7 +294,7 @@ func WriteMoving(w io.Writer, format string, in MovingInput, width, height float
 		return fmt.Errorf("canvas: there is no model to draw")
 	}
 	if height <= footerHeight {
-		return fmt.Errorf("canvas: a drawing must be taller than %d points, got %g", footerHeight, height)
+		return footerError(height)
 	}
 	in.Hovering = false
 	s, _ := BuildMoving(in, width, height-footerHeight)

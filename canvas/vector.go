@@ -250,15 +250,39 @@ func writeScene(w io.Writer, s *Scene, format string, scale float64) error {
 	return err
 }
 
+// MaxPixels is the most pixels a side of a PNG may have.
+const MaxPixels = 20000
+
+// SizeError is the refusal of a drawing's size: a PNG that would not come
+// to 1 to MaxPixels pixels a side at its density, or a drawing too low for
+// its footer. A caller that takes the size and density from the user tells
+// it apart from a failure to write.
+type SizeError struct{ msg string }
+
+func (e *SizeError) Error() string { return e.msg }
+
 func checkSize(s *Scene, scale float64) error {
 	if s == nil {
 		return fmt.Errorf("canvas: no scene to write: call Build first")
 	}
 	w, h := float64(s.Width)*scale, float64(s.Height)*scale
-	if s.Width < 1 || s.Height < 1 || !(w >= 1 && w <= 20000 && h >= 1 && h <= 20000) {
-		return fmt.Errorf("canvas: cannot write a drawing of %v × %v pixels at scale %v: each side must come to between 1 and 20000 pixels", s.Width, s.Height, scale)
+	if s.Width < 1 || s.Height < 1 || !(w >= 1 && w <= MaxPixels && h >= 1 && h <= MaxPixels) {
+		if scale == 1 {
+			return &SizeError{fmt.Sprintf("canvas: a drawing of %g × %g points: each side must come to 1 to %d points", s.Width, s.Height, MaxPixels)}
+		}
+		lo, hi := 72/float64(min(s.Width, s.Height)), MaxPixels*72/float64(max(s.Width, s.Height))
+		return &SizeError{fmt.Sprintf("canvas: a drawing of %g × %g points at %.6g dpi come to %s × %s pixels, and a PNG has 1 to %d pixels a side: give %g to %g dpi for this drawing",
+			s.Width, s.Height, scale*72, pixels(w), pixels(h), MaxPixels, math.Ceil(lo*100)/100, math.Floor(hi))}
 	}
 	return nil
+}
+
+// pixels writes a count of pixels: whole from 10 up, to two figures below.
+func pixels(v float64) string {
+	if v >= 10 {
+		return fmt.Sprintf("%.0f", v)
+	}
+	return fmt.Sprintf("%.2g", v)
 }
 
 // straightAlpha is a colour whose RGBA method returns unpremultiplied

@@ -154,13 +154,35 @@ func build(m *Model, nodes []float64, els []elementData, form Formulation) (*ban
 // Over a foundation it refines the solution (groundrefine.go).
 func (as *assembly) solve(els []elementData, nodal [][3]float64, settlement [][3]float64, u []float64) error {
 	loads := as.loads(els, nodal)
-	if err := as.ldl.SolveTo(u, as.restrained(slices.Clone(loads), settlement)); err != nil || !as.grounded {
+	rhs := as.restrained(slices.Clone(loads), settlement)
+	if err := as.ldl.SolveTo(u, rhs); err != nil {
 		return err
+	}
+	if lostToUnderflow(rhs, u) {
+		return errUnderflow
+	}
+	if !as.grounded {
+		return nil
 	}
 	for _, f := range as.fixed {
 		u[f.dof] = settlementOf(settlement, f.support, f.motion)
 	}
 	return as.refine(els, loads, u)
+}
+
+// lostToUnderflow tells whether the solution u of a system with the
+// right-hand side rhs underflowed float64: rhs is not zero, but the largest
+// unknown is zero or below smallestNormal (loads of 1e-200 N/m on a
+// stiffness of 1e150 N/m move it by 1e-345 m).
+func lostToUnderflow(rhs, u []float64) bool {
+	largest := func(v []float64) float64 {
+		m := 0.0
+		for _, x := range v {
+			m = max(m, math.Abs(x))
+		}
+		return m
+	}
+	return largest(rhs) > 0 && largest(u) < smallestNormal
 }
 
 // rhs is the load vector of els, nodal and settlement with the supports applied.

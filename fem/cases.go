@@ -276,6 +276,9 @@ func CombineSolutions(sols []*Solution, factors []float64) (*Solution, error) {
 	for j := range 3 {
 		out.Equilibrium.Residual[j] = out.Equilibrium.Applied[j] + out.Equilibrium.Reactions[j]
 	}
+	if err := checkUnderflow(out); err != nil {
+		return nil, err
+	}
 	return out, nil
 }
 

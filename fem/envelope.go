@@ -203,8 +203,8 @@ func (p *Member) SolveCombinations(mesh Mesh) (*CombinationSolutions, error) {
 		return nil, err
 	}
 	cs := &CombinationSolutions{Loads: cl}
-	if cs.Fixed, err = solveAll(cl.Fixed, st.Solve); err == nil {
-		cs.Shares, err = solveAll(cl.ShareLoads, st.Solve)
+	if cs.Fixed, err = solveAll(cl.Fixed, st.Solve, p.fixedName(cl)); err == nil {
+		cs.Shares, err = solveAll(cl.ShareLoads, st.Solve, p.shareName(cl))
 	}
 	if err == nil {
 		cs.tolerances = shareTolerances(cs.Shares)
@@ -219,22 +219,44 @@ func (cs *CombinationSolutions) SolveExact(p *Member) error {
 	if err != nil {
 		return err
 	}
-	if cs.FixedExact, err = solveAll(cs.Loads.Fixed, es.Solve); err != nil {
+	if cs.FixedExact, err = solveAll(cs.Loads.Fixed, es.Solve, p.fixedName(cs.Loads)); err != nil {
 		return err
 	}
-	cs.SharesExact, err = solveAll(cs.Loads.ShareLoads, es.Solve)
+	cs.SharesExact, err = solveAll(cs.Loads.ShareLoads, es.Solve, p.shareName(cs.Loads))
 	return err
 }
 
-func solveAll[S any](sets []Loads, solve func(*Loads) (S, error)) ([]S, error) {
+// solveAll solves every load set of sets, and names set i (name(i)) in the
+// error of one that does not solve: a combination's factor or a case's
+// loads may make results that overflow or underflow, and a file has many.
+func solveAll[S any](sets []Loads, solve func(*Loads) (S, error), name func(int) string) ([]S, error) {
 	out := make([]S, len(sets))
 	for i := range sets {
 		var err error
 		if out[i], err = solve(&sets[i]); err != nil {
-			return nil, err
+			return nil, fmt.Errorf("%s: %w", name(i), err)
 		}
 	}
 	return out, nil
+}
+
+// fixedName names the loads always on of each combination of cl: a load
+// case of a model without combinations, whose envelope takes each case
+// alone.
+func (p *Member) fixedName(cl *CombinationLoads) func(int) string {
+	what := "combination"
+	if len(p.model.Combinations) == 0 {
+		what = "load case"
+	}
+	return func(c int) string { return fmt.Sprintf("%s %q", what, cl.Combinations[c].Name) }
+}
+
+// shareName names the span shares of cl.
+func (p *Member) shareName(cl *CombinationLoads) func(int) string {
+	return func(j int) string {
+		sh := cl.Shares[j]
+		return fmt.Sprintf("load case %q, span %d", p.model.Cases[sh.Case].Name, sh.Span+1)
+	}
 }
 
 // terms are combination c's solutions with every span loaded and their

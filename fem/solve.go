@@ -251,6 +251,9 @@ func (st *Structure) Solve(l *Loads) (*Solution, error) {
 	}
 	s.Condition += levelRoundOff * float64(depth)
 	s.Equilibrium = equilibrium(l.Resultant(), s.Reactions, groundResultant(s.Foundations))
+	if err := checkUnderflow(s); err != nil {
+		return nil, err
+	}
 	return s, nil
 }
 
@@ -274,6 +277,40 @@ func checkFinite(poison float64, s *Solution) error {
 
 // errNotFinite is the refusal of results that overflowed, by either solver.
 var errNotFinite = errors.New("the results are too large for floating point (a displacement, force, moment or stress is infinite or undefined): check the units and magnitudes of the section, material, springs and loads")
+
+// smallestNormal is float64's smallest normal number, 2^−1022 ≈ 2.2e-308
+// (IEEE 754 binary64): below it numbers lose significant bits.
+const smallestNormal = 0x1p-1022
+
+// checkUnderflow refuses results that underflowed float64, which validated
+// but extreme inputs (a load of 1e-300 N/m, a combination's factor of
+// 1e-320) can produce: displacements, applied forces or reactions that are
+// not all zero but whose largest is below smallestNormal, where their
+// digits are lost. Equilibrium would fail on them with nothing wrong in the
+// solver. (Displacements lost to zero are refused where they are solved
+// for, assembly.solve.)
+func checkUnderflow(s *Solution) error {
+	largest := 0.0
+	for _, d := range s.Displacement {
+		for _, v := range d {
+			largest = max(largest, math.Abs(v))
+		}
+	}
+	applied, reactions := 0.0, 0.0
+	for i := range 3 {
+		applied = max(applied, math.Abs(s.Equilibrium.Applied[i]))
+		reactions = max(reactions, math.Abs(s.Equilibrium.Reactions[i]))
+	}
+	for _, v := range []float64{largest, applied, reactions} {
+		if v > 0 && v < smallestNormal {
+			return errUnderflow
+		}
+	}
+	return nil
+}
+
+// errUnderflow is the refusal of results that underflowed.
+var errUnderflow = errors.New("the results are too small for floating point (the displacements or forces come to less than 2.2e-308, where numbers lose their digits): check the units and magnitudes of the loads, combination factors, section, material and springs")
 
 // sectionTable gathers the section data of every segment under the thermal
 // loads of l: its uniform change of temperature and the segments'

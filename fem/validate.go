@@ -735,7 +735,11 @@ func (v *validator) distributedLoads(loads []DistributedLoad, lengthKnown bool) 
 		for j := 1; j < len(d.Points); j++ {
 			if d.Points[j].X-d.Points[j-1].X <= v.tol {
 				here, before := fmtPair(d.Points[j].X, d.Points[j-1].X)
-				v.add(Place{Item: it, Property: PointXProperty, Vertex: j}, fmt.Sprintf("distributed load %d: point %d (x = %s m) does not lie beyond point %d (x = %s m): list the points in increasing x without repeats", i+1, j+1, here, j, before))
+				where := fmt.Sprintf("does not lie beyond point %d (x = %s m)", j, before)
+				if d.Points[j].X > d.Points[j-1].X {
+					where = fmt.Sprintf("lies beyond point %d (x = %s m) by less than %g of the member's length, so they count as one point", j, before, mergeTolerance)
+				}
+				v.add(Place{Item: it, Property: PointXProperty, Vertex: j}, fmt.Sprintf("distributed load %d: point %d (x = %s m) %s: list the points in increasing x without repeats", i+1, j+1, here, where))
 				break
 			}
 		}

@@ -2,6 +2,7 @@ package main
 
 import (
 	"context"
+	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -23,7 +24,7 @@ func exportCommand(args []string, stdout io.Writer) error {
 	sheet := fs.Bool("sheet", false, "write the one-page calculation sheet (with --out NAME.pdf or NAME.png)")
 	multiples := fs.Bool("multiples", false, "write the member on 1, 2, 4 and 8 elements per stretch, one drawing under the other (with --out NAME.png or NAME.pdf)")
 	elements := fs.Int("elements", 0, "solve on N elements instead of the file's mesh (spread over the stretches by length)")
-	dpi := fs.Float64("dpi", 0, "pixel density of PNG output, 1 to 20,000 (default 96)")
+	dpi := fs.Float64("dpi", 0, "pixel density of PNG output, 1 to 20,000, with the drawing at most 20,000 pixels a side (default 96)")
 	width := fs.Float64("width", 0, "drawing width in points, 1 to 20,000 (default 1200)")
 	height := fs.Float64("height", 0, "drawing height in points, 1 to 20,000 (default 800)")
 	points := fs.Int("points", 0, "CSV only: sample each element at N+1 evenly spaced points, both ends included (default 4; fewer from 20,000 elements on)")
@@ -81,6 +82,11 @@ func exportCommand(args []string, stdout io.Writer) error {
 		src, err = report.Export(context.Background(), w, p, kind, opts)
 		return err
 	})
+	var size *canvas.SizeError
+	if errors.As(err, &size) {
+		// The size and density each lie in their ranges, but not together.
+		return usageError{fmt.Sprintf("--width, --height, --dpi: %s", strings.TrimPrefix(size.Error(), "canvas: "))}
+	}
 	if err != nil {
 		return modelError{fmt.Errorf("%s: %w", path, err)}
 	}

@@ -288,6 +288,42 @@ func TestExportRefusesImpossibleSizes(t *testing.T) {
 	}
 }
 
+// A density each flag allows alone can still make a PNG larger than
+// 20,000 pixels a side, or smaller than one, with the drawing's size: that
+// is misuse too, refused with the pixels it would make and the densities
+// that fit (a pixel is 1/72 of a point times the density: 1200 points at
+// 20,000 dpi is 333,333 pixels); so is a height the footer leaves no room
+// in. They were refused as a model (exit 1) after solving, the first
+// naming the 1200 × 800 points pixels.
+func TestExportRefusesDensitiesTooLargeForTheDrawing(t *testing.T) {
+	dir := t.TempDir()
+	for _, c := range []struct {
+		args    []string
+		phrases []string
+	}{
+		{[]string{"--out", "x.png", "--dpi", "20000"},
+			[]string{"1200 × 800 points at 20000 dpi come to 333333 × 222222 pixels", "give 0.09 to 1200 dpi"}},
+		{[]string{"--out", "x.png", "--dpi", "1", "--width", "30", "--height", "40"},
+			[]string{"30 × 40 points at 1 dpi come to 0.42 × 0.56 pixels", "give 2.4 to 36000 dpi"}},
+		{[]string{"--out", "x.svg", "--height", "10"}, []string{"a drawing 10 points high leaves no room above its 18-point footer"}},
+		{[]string{"--out", "x.png", "--multiples", "--dpi", "5000"}, []string{"at 5000 dpi come to", "pixels"}},
+	} {
+		out := filepath.Join(dir, c.args[1])
+		code, _, stderr := runStave(t, append([]string{"export", "../../testdata/demo.json"}, c.args...)...)
+		if code != 2 {
+			t.Errorf("%v: exit %d, want 2; stderr %s", c.args, code, stderr)
+		}
+		for _, phrase := range c.phrases {
+			if !strings.Contains(stderr, phrase) {
+				t.Errorf("%v: stderr lacks %q: %s", c.args, phrase, stderr)
+			}
+		}
+		if _, err := os.Stat(out); err == nil {
+			t.Errorf("%v: %s was written", c.args, out)
+		}
+	}
+}
+
 // --points sets the rows per element of the table and --units its unit
 // system, which the preamble states; the file is written whole or not at
 // all.

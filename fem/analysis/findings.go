@@ -468,7 +468,7 @@ func (a *Analysis) HeadlineText(u units.System) string {
 	} else {
 		b.WriteString("No exact solution: finite element (FE) values:")
 	}
-	for _, r := range sum.Reactions {
+	for _, r := range sum.Reactions[:min(len(sum.Reactions), headlineRows)] {
 		var parts []string
 		for d, c := range []struct {
 			name  string
@@ -481,6 +481,7 @@ func (a *Analysis) HeadlineText(u units.System) string {
 		}
 		fmt.Fprintf(&b, "\n• reaction %d (%s, %s): %s", r.Support, r.Kind, pos(r.X), strings.Join(parts, ", "))
 	}
+	more(&b, len(sum.Reactions), "reactions")
 	for _, e := range sum.Extremes {
 		if !slices.Contains(headlineQuantities, e.Quantity) || e.Max == 0 && e.Min == 0 && e.FEMax == 0 && e.FEMin == 0 {
 			continue
@@ -494,14 +495,28 @@ func (a *Analysis) HeadlineText(u units.System) string {
 			u.Format(k, e.Min), pos(e.XMin), u.Format(k, e.Max), pos(e.XMax),
 			u.Format(k, e.FEMin), pos(e.FEXMin), u.Format(k, e.FEMax), pos(e.FEXMax))
 	}
-	for _, s := range sum.Supports {
+	for _, s := range sum.Supports[:min(len(sum.Supports), headlineRows)] {
 		fmt.Fprintf(&b, "\n• at support %d (%s): V %s left, %s right; M %s", s.Support, pos(s.X),
 			value(units.Force, s.Shear[0], s.FEShear[0]), value(units.Force, s.Shear[1], s.FEShear[1]), value(units.Moment, s.Moment[0], s.FEMoment[0]))
 		if math.Abs(s.Moment[1]-s.Moment[0]) > 1e-9*math.Max(math.Abs(s.Moment[0]), math.Abs(s.Moment[1])) {
 			fmt.Fprintf(&b, " left, %s right", value(units.Moment, s.Moment[1], s.FEMoment[1]))
 		}
 	}
+	more(&b, len(sum.Supports), "supports inside the member")
 	return b.String()
+}
+
+// headlineRows is the most reactions, and the most supports inside the
+// member, HeadlineText lists: a member on 500 supports made 109 kB of text,
+// which the window's wrapped label took 2 s to lay out (40,000 supports
+// froze it for minutes).
+const headlineRows = 10
+
+// more says how many of n items of what HeadlineText left out.
+func more(b *strings.Builder, n int, what string) {
+	if n > headlineRows {
+		fmt.Fprintf(b, "\n• and %d more %s (`stave solve` lists every one)", n-headlineRows, what)
+	}
 }
 
 // HandbookText shows the handbook case the model matches, with each

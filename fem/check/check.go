@@ -25,6 +25,7 @@ package check
 
 import (
 	"fmt"
+	"iter"
 	"math"
 	"sort"
 	"strconv"
@@ -358,17 +359,50 @@ func (p *Probe) foldExact() {
 		return
 	}
 	p.ex = p.newPeaks()
+	var parts, columns sweep
 	for _, iv := range p.exact.Intervals() {
 		mid := iv.X(0.5)
 		p.ex.takeStress(p.model.SegmentAt(mid), &iv)
-		for k, st := range p.parts {
-			if st.a <= mid && mid <= st.b {
-				p.ex.takeDeflection(k, &iv, &p.chords[k][1])
-			}
+		for k := range holding(&parts, p.parts, mid) {
+			p.ex.takeDeflection(k, &iv, &p.chords[k][1])
 		}
-		for k, c := range p.columns {
-			if c.a <= mid && mid <= c.b {
-				p.ex.takeCompression(k, &iv)
+		for k := range holding(&columns, p.columns, mid) {
+			p.ex.takeCompression(k, &iv)
+		}
+	}
+}
+
+// extent is a part of the member from a to b.
+type extent interface{ ends() (a, b float64) }
+
+func (s stretch) ends() (a, b float64) { return s.a, s.b }
+func (c column) ends() (a, b float64)  { return c.a, c.b }
+
+// sweep slides along a list of parts sorted along the member, both ends
+// growing with k (as stretches and columns are), for points that never
+// decrease: next is the first part that does not end before the last
+// point. It finds the parts holding each point in time proportional to
+// their number, where a search of the whole list for every stretch of the
+// exact solution took 49 s for a beam over 100,000 supports.
+type sweep struct{ next int }
+
+// holding yields the index of every part of list that holds x (a ≤ x ≤
+// b); x must not decrease between calls with the same sweep.
+func holding[T extent](s *sweep, list []T, x float64) iter.Seq[int] {
+	return func(yield func(int) bool) {
+		for s.next < len(list) {
+			if _, b := list[s.next].ends(); b >= x {
+				break
+			}
+			s.next++
+		}
+		for k := s.next; k < len(list); k++ {
+			a, b := list[k].ends()
+			if a > x {
+				return
+			}
+			if x <= b && !yield(k) {
+				return
 			}
 		}
 	}

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strconv"
 	"strings"
 
 	"stave/fem"
@@ -166,7 +167,11 @@ func (t *Train) Problems(L float64) []Problem {
 	}
 	lo, hi := t.Fronts(L)
 	if n := positions(hi-lo, t.Step); t.Step > 0 && n > MaxPositions {
-		add("step", "a step of %s m takes %d positions along the %s m the train can move; Stave takes at most %d: enter a step of at least %s m", trim(t.Step), n, trim(hi-lo), MaxPositions, trim((hi-lo)/(MaxPositions-1)))
+		count := strconv.Itoa(n)
+		if n >= positionsCap {
+			count = strconv.FormatFloat((hi-lo)/t.Step+1, 'g', 3, 64) // the cap is not the count
+		}
+		add("step", "a step of %s m takes %s positions along the %s m the train can move; Stave takes at most %d: enter a step of at least %s m", trim(t.Step), count, trim(hi-lo), MaxPositions, trim((hi-lo)/(MaxPositions-1)))
 	}
 	return out
 }
@@ -266,16 +271,20 @@ func (t *Train) Check(L float64, i int) error {
 	return errors.New(t.Label(i) + ": " + strings.Join(msgs, "; "))
 }
 
+// positionsCap is the most positions counts: far beyond any limit, and
+// no overflow of an int.
+const positionsCap = 1e15
+
 // positions is the number of positions a step gives over a free run of
 // the given length: the run divided evenly into steps no longer than step,
-// both ends included.
+// both ends included (at most positionsCap).
 func positions(free, step float64) int {
 	if free <= 0 {
 		return 1
 	}
 	n := math.Ceil(free / step * (1 - 1e-12))
-	if !(n < 1e15) {
-		return 1e15 // far beyond any limit, and no overflow
+	if !(n < positionsCap) {
+		return positionsCap // far beyond any limit, and no overflow
 	}
 	return int(n) + 1
 }

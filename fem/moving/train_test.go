@@ -230,6 +230,9 @@ func TestTrainProblems(t *testing.T) {
 		{"negative spacing", func(t *Train) { t.Axles[1].Spacing = -1 }, "axles[1].spacing", "must be above zero"},
 		{"a spacing before the first axle", func(t *Train) { t.Axles[0].Spacing = 1 }, "axles[0].spacing", "nothing stands before it"},
 		{"millions of positions", func(t *Train) { t.Step = 1e-6 }, "step", "takes 8000001 positions"},
+		// 8 m / 1e-300 m: the count once said 1000000000000000, the cap
+		// positions keeps it under.
+		{"more positions than an int holds", func(t *Train) { t.Step = 1e-300 }, "step", "takes 8e+300 positions"},
 		{"negative step", func(t *Train) { t.Step = -0.1 }, "step", "enter a step above zero"},
 		{"no loads", func(t *Train) { t.Axles = nil }, "", "no loads"},
 		{"more axles than the envelope's search takes", func(t *Train) {

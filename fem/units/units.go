@@ -528,15 +528,10 @@ func lookUp(q Kind, symbol string) (Unit, bool) {
 	if strings.HasPrefix(key, "/") {
 		key = "1" + key
 	}
-	own := candidates(q)
-	for i, u := range append(own, aliases[q]...) {
+	for _, u := range append(candidates(q), aliases[q]...) {
 		if normalize(u.Symbol) == key {
-			if i < len(own) && joinsWords(symbol) && !joinsWords(u.Symbol) {
-				// "m m" is no millimetre, nor "k N" a kilonewton: a
-				// product sign typed between two words must be one in
-				// the unit's own symbol too (the spelled variants, such
-				// as "deg F", are read as written).
-				return Unit{}, false
+			if !strings.ContainsAny(u.Symbol, productMarks) && apart(symbol) {
+				return Unit{}, false // "m m" is m·m, not mm
 			}
 			return u, true
 		}
@@ -544,26 +539,24 @@ func lookUp(q Kind, symbol string) (Unit, bool) {
 	return Unit{}, false
 }
 
-// joinsWords tells whether symbol has a product sign (a space, a dot, a
-// star or a hyphen; see normalize) between two letters, as in "kN m".
-func joinsWords(symbol string) bool {
-	runes := []rune(strings.TrimSpace(symbol))
-	for i := 1; i+1 < len(runes); i++ {
-		switch runes[i] {
-		case ' ', '·', '⋅', '*', '.', '-':
-		default:
-			continue
-		}
-		before := runes[i-1]
-		j := i + 1
-		for j < len(runes) && runes[j] == ' ' {
-			j++
-		}
-		if j < len(runes) && unicode.IsLetter(before) && unicode.IsLetter(runes[j]) {
-			return true
+// productMarks are what normalize drops between the units of a product.
+const productMarks = "·⋅*. -"
+
+// apart tells whether symbol is units typed apart, "m m" or "m*m": their
+// product, which normalize joins into the symbol of another unit (mm). A
+// part that is no unit of its own keeps the whole one symbol: "deg F",
+// "k N".
+func apart(symbol string) bool {
+	parts := strings.FieldsFunc(symbol, func(r rune) bool { return strings.ContainsRune(productMarks, r) })
+	if len(parts) < 2 {
+		return false
+	}
+	for _, p := range parts {
+		if _, ok := kindOf(p); !ok {
+			return false
 		}
 	}
-	return false
+	return true
 }
 
 // singular reads the plurals "kips" and "lbs", standing as words, as kip

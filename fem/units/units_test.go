@@ -273,11 +273,6 @@ func TestParseErrors(t *testing.T) {
 		// A decimal comma, or a thousands separator, is not a unit.
 		{Position, "1,5", "use a point for decimals, such as 1.5, and no thousands separator; got '1,5'"},
 		{Force, "1,000 kN", "use a point for decimals, such as 1.5, and no thousands separator; got '1,000 kN'"},
-		// A product sign between two words is a product: "m m" is no
-		// millimetre (it read 0.9 m m as 0.9 mm), nor "k N" a kilonewton.
-		{Position, "0.9 m m", "unknown unit 'm m' for a position"},
-		{Force, "3 k N", "unknown unit 'k N' for a force"},
-		{Position, "2 m.m", "unknown unit 'm.m' for a position"},
 	}
 	for _, c := range cases {
 		_, err := SI.Parse(c.q, c.text)
@@ -492,6 +487,12 @@ func TestParseUSSpellingsRefused(t *testing.T) {
 		{Position, `12' 3 1/2"`, "fractions are not read; type a decimal, such as 3.5 for 3 1/2"},
 		{Dimension, `1/2"`, "fractions are not read"},
 		{Position, "12 -ft", "unknown unit '-ft' for a position"},
+		// Units typed apart are their product (as in "kN m"), which no unit
+		// of one symbol is: "2 m m" read as 2 mm, a thousandth of it.
+		{Position, "2 m m", "unknown unit 'm m' for a position"},
+		{Position, "2 m*m", "unknown unit 'm*m' for a position"},
+		{Dimension, "2 m.m", "unknown unit 'm.m' for a section dimension"},
+		{Area, "2 m·m", "unknown unit 'm·m' for an area"},
 		{Position, "12 ft 3", "unknown unit 'ft 3' for a position"},
 	}
 	for _, c := range cases {
