@@ -529,11 +529,7 @@ const parallelStations = 2048
 // positions it is shown at. Its cost grows with the stations, the axles
 // and the key points, not with the step (see the package comment).
 func (in *Influence) Envelope(t *Train, mesh fem.Mesh, stations []float64) (*Envelope, error) {
-	s := in.bending
-	if s == nil {
-		return nil, in.bendingErr
-	}
-	runs, err := t.runs(in.model.Length(), mesh)
+	s, runs, err := in.bendingRuns(t, mesh)
 	if err != nil {
 		return nil, err
 	}
@@ -559,17 +555,23 @@ func (in *Influence) Envelope(t *Train, mesh fem.Mesh, stations []float64) (*Env
 // at a support) Envelope holds the larger of the two sides, EnvelopeSide
 // that side's, to combine with other loads' field on the same side.
 func (in *Influence) EnvelopeSide(t *Train, mesh fem.Mesh, stations []float64, side fem.Side) (*Envelope, error) {
-	s := in.bending
-	if s == nil {
-		return nil, in.bendingErr
-	}
-	runs, err := t.runs(in.model.Length(), mesh)
+	s, runs, err := in.bendingRuns(t, mesh)
 	if err != nil {
 		return nil, err
 	}
 	e := in.envelopeAt(s, t, runs, stations, side)
 	in.envelopeReactions(s, e)
 	return e, nil
+}
+
+// bendingRuns are the bending problem's sweeps and train t's runs along
+// the member, or why there are none.
+func (in *Influence) bendingRuns(t *Train, mesh fem.Mesh) (*sweeps, []run, error) {
+	if in.bending == nil {
+		return nil, nil, in.bendingErr
+	}
+	runs, err := t.runs(in.model.Length(), mesh)
+	return in.bending, runs, err
 }
 
 // envelopeAt is train t's envelope at the stations, without reactions,
