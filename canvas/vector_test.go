@@ -27,14 +27,7 @@ func TestSuperscriptsInExports(t *testing.T) {
 		raised bool
 	}{{"I = 8356 cm", false}, {"4", true}, {" at 10", false}, {"-3", true}}
 	for _, style := range []paintStyle{allText, forPDF} {
-		var rec recorder.Canvas
-		drawScene(&rec, s, vg.Point{Y: 100}, 1, style)
-		var got []*recorder.FillString
-		for _, a := range rec.Actions {
-			if f, ok := a.(*recorder.FillString); ok {
-				got = append(got, f)
-			}
-		}
+		got := drawnStrings(s, style)
 		if len(got) != len(want) {
 			t.Fatalf("style %d: %d strings drawn, want %d: %+v", style, len(got), len(want), got)
 		}
@@ -105,14 +98,7 @@ func TestPDFTextSpellsWhatCodePage1252Lacks(t *testing.T) {
 	s := &Scene{Width: 800, Height: 100, Items: []Item{
 		{Kind: Text, Text: "FE − exact 0 mm; κ 0.4000, ν 0.3000; π²EI/(KL)²; δ ≤ L/360 at 10⁻³", At: Point{X: 10, Y: 10}, Size: size, Stroke: color.NRGBA{A: 255}},
 	}}
-	var rec recorder.Canvas
-	drawScene(&rec, s, vg.Point{Y: 100}, 1, forPDF)
-	var drawn []*recorder.FillString
-	for _, a := range rec.Actions {
-		if f, ok := a.(*recorder.FillString); ok {
-			drawn = append(drawn, f)
-		}
-	}
+	drawn := drawnStrings(s, forPDF)
 	var got string
 	for _, f := range drawn {
 		got += f.String
@@ -133,5 +119,19 @@ func TestPDFTextSpellsWhatCodePage1252Lacks(t *testing.T) {
 
 func decode1252(s string) string {
 	out, _ := charmap.Windows1252.NewDecoder().String(s)
+	return out
+}
+
+// drawnStrings are the texts drawScene writes of s in style, in order, as
+// a recording canvas keeps them.
+func drawnStrings(s *Scene, style paintStyle) []*recorder.FillString {
+	var rec recorder.Canvas
+	drawScene(&rec, s, vg.Point{Y: 100}, 1, style)
+	var out []*recorder.FillString
+	for _, a := range rec.Actions {
+		if f, ok := a.(*recorder.FillString); ok {
+			out = append(out, f)
+		}
+	}
 	return out
 }
