@@ -364,6 +364,47 @@ func (w *Window) deleteCase() {
 	}
 }
 
+// deleteTrain removes train t from the project and from every combination
+// that takes it, in the model and in the undo history alike: trains are not
+// undone, so no model there may name one that is gone, or name by its old
+// number a train that moved up. The trains after it are numbered one lower.
+func (w *Window) deleteTrain(t int) {
+	ts := w.project.Trains
+	w.project.Trains = append(ts[:t:t], ts[t+1:]...)
+	for _, stack := range [][]edit{w.hist.done, w.hist.undone} {
+		for i := range stack {
+			e := &stack[i]
+			e.before.Combinations = withoutTrain(e.before.Combinations, t)
+			e.after.Combinations = withoutTrain(e.after.Combinations, t)
+		}
+	}
+	m := w.project.Model.Clone()
+	m.Combinations = withoutTrain(m.Combinations, t)
+	w.project.Model = m
+	w.trainsChanged()
+	w.modelChanged()
+}
+
+// withoutTrain is combos with train t taken out and the trains after it
+// numbered one lower, in new slices: models sharing combos keep theirs.
+func withoutTrain(combos []fem.Combination, t int) []fem.Combination {
+	if combos == nil {
+		return nil
+	}
+	out := make([]fem.Combination, len(combos))
+	for i, cb := range combos {
+		cb.Trains = nil
+		for _, f := range combos[i].Trains {
+			if f.Train != t {
+				f.Train -= min(max(f.Train-t, 0), 1)
+				cb.Trains = append(cb.Trains, f)
+			}
+		}
+		out[i] = cb
+	}
+	return out
+}
+
 // shownAfterDeletion is what to show of after, the model before with case
 // k deleted, in place of s, shown before: the same case or combination
 // where it still is, else the envelope.

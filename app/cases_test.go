@@ -337,3 +337,72 @@ func TestCombinationTrainCautionNamesTheTrain(t *testing.T) {
 		t.Errorf("the train cautions are %q, want %q", names, want)
 	}
 }
+
+// Renaming, adding or deleting a train in the moving-loads window brings
+// the main window's checks up to date at once: the caution kept naming the
+// train by its old name until the next edit of the member.
+func TestTrainCautionFollowsTheMovingLoadsWindow(t *testing.T) {
+	p, err := storage.Load("../testdata/two_span_cases.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	p.Trains = []moving.Train{{Name: "pair", Axles: []moving.Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}}}
+	p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 0, Factor: 1.5}}
+	w, q := newTestWindow(t, p)
+	finished(t, w, q)
+	w.showMovingLoads()
+	mw := w.moving
+	mw.name.SetText("heavy pair")
+	mw.apply()
+	finished(t, w, q)
+	var names []string
+	for _, f := range w.checks {
+		if f.Code == analysis.CodeTrainNotChecked {
+			names = append(names, f.Name)
+		}
+	}
+	if want := `combination "both" with moving load train "heavy pair"`; !slices.Contains(names, want) {
+		t.Errorf("after renaming the train the cautions are %q, want %q", names, want)
+	}
+}
+
+// Deleting a train a combination takes drops it from the combination and
+// renumbers the others: a combination taking the second of two trains
+// took none, or a train that was not there, once the first was deleted.
+func TestDeletingATrainKeepsTheCombinationsTrains(t *testing.T) {
+	p, err := storage.Load("../testdata/two_span_cases.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	p.Trains = []moving.Train{
+		{Name: "pair", Axles: []moving.Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}},
+		{Name: "cart", Axles: []moving.Axle{{Load: 5e3}, {Load: 5e3, Spacing: 1}}},
+	}
+	p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 0, Factor: 1.5}, {Train: 1, Factor: 1.2}}
+	w, q := newTestWindow(t, p)
+	finished(t, w, q)
+	if err := w.apply("set the mesh", func(m *fem.Model) error { m.Mesh.Elements = 40; return nil }); err != nil {
+		t.Fatal(err)
+	}
+	w.showMovingLoads()
+	w.moving.choose(0)
+	w.moving.deleteTrain()
+	finished(t, w, q)
+	want := []fem.TrainFactor{{Train: 0, Factor: 1.2}}
+	if got := w.project.Model.Combinations[0].Trains; !reflect.DeepEqual(got, want) {
+		t.Errorf("after deleting the first train the combination takes %+v, want %+v (the cart, now the first)", got, want)
+	}
+	w.undo()
+	if got := w.project.Model.Combinations[0].Trains; !reflect.DeepEqual(got, want) {
+		t.Errorf("undoing an edit made before the train was deleted gives the combination %+v, want %+v", got, want)
+	}
+	var names []string
+	for _, f := range w.checks {
+		if f.Code == analysis.CodeTrainNotChecked {
+			names = append(names, f.Name)
+		}
+	}
+	if want := `combination "both" with moving load train "cart"`; !slices.Contains(names, want) {
+		t.Errorf("after deleting the first train the cautions are %q, want %q", names, want)
+	}
+}

@@ -464,7 +464,7 @@ func (mw *movingWindow) apply() {
 		return
 	}
 	mw.w.project.Trains[mw.index] = t
-	mw.w.updateTitle()
+	mw.w.trainsChanged()
 	mw.status.SetText("applied " + t.Label(mw.index))
 	mw.modelChanged()
 }
@@ -476,7 +476,7 @@ func (mw *movingWindow) newTrain() {
 	t := moving.Train{Name: fmt.Sprintf("train %d", len(mw.w.project.Trains)+1),
 		Axles: []moving.Axle{{Load: 10e3}, {Load: 10e3, Spacing: spacing}}}
 	mw.w.project.Trains = append(mw.w.project.Trains, t)
-	mw.w.updateTitle()
+	mw.w.trainsChanged()
 	mw.choose(len(mw.w.project.Trains) - 1)
 }
 
@@ -485,10 +485,9 @@ func (mw *movingWindow) deleteTrain() {
 	if mw.index < 0 {
 		return
 	}
-	ts := mw.w.project.Trains
-	mw.w.project.Trains = append(ts[:mw.index:mw.index], ts[mw.index+1:]...)
-	mw.w.updateTitle()
+	i := mw.index
 	mw.index = -1
+	mw.w.deleteTrain(i)
 	if len(mw.w.project.Trains) > 0 {
 		mw.choose(0)
 		return

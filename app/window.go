@@ -242,6 +242,14 @@ func (w *Window) resubmit() {
 	w.pending = w.solver.submit(w.canonicalModel(), w.adaptNodes, w.checkOptions())
 }
 
+// trainsChanged follows an edit of the project's trains: the title says
+// there are unsaved changes, and the analysis runs again, since its
+// cautions name the trains the combinations take.
+func (w *Window) trainsChanged() {
+	w.updateTitle()
+	w.resubmit()
+}
+
 // modelChanged brings everything that shows the model up to date.
 func (w *Window) modelChanged() {
 	w.draw.Refresh()
