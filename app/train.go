@@ -18,6 +18,7 @@ import (
 	"stave/fem"
 	"stave/fem/moving"
 	"stave/fem/units"
+	"stave/storage"
 )
 
 // The moving-loads window: a train defined in a small table, drawn on the
@@ -55,29 +56,37 @@ type movingWindow struct {
 
 	quantity     *widget.Select
 	targetSelect *widget.Select
-	point        *widget.Entry // where the line of a field is, typed (pinAt)
-	pic          *movingPicture
-	readout      *widget.Label
-	status       *widget.Label
+	// withSelect offers the train alone or a combination that takes it;
+	// withNames are the combinations it offers after the train alone.
+	withSelect *widget.Select
+	withNames  []string
+	point      *widget.Entry // where the line of a field is, typed (pinAt)
+	pic        *movingPicture
+	readout    *widget.Label
+	status     *widget.Label
 
 	// What is shown.
-	quantityIndex int // into moving.EnvelopeQuantities
-	reaction      int // the support whose reaction's line is shown, or −1
+	quantityIndex int    // into moving.EnvelopeQuantities
+	with          string // the combination shown with the train; "" for the train alone
+	reaction      int    // the support whose reaction's line is shown, or −1
 	pinned        bool
 	pointX        float64 // where the line reads the quantity, m
 	hoverX        float64
 	hovering      bool
 
 	// Results, for the model and train they were found for.
-	member  *fem.Member
-	infl    *moving.Influence
-	mesh    fem.Mesh
-	env     *moving.Envelope
-	line    *moving.Line
-	worst   []moving.Extreme
-	at      moving.Placement
-	current []float64
-	seq     uint64 // of the newest envelope asked for
+	member *fem.Member
+	infl   *moving.Influence
+	mesh   fem.Mesh
+	env    *moving.Envelope
+	// combined is the combination with, whose envelope env is, once found;
+	// nil for the train alone.
+	combined *report.TrainCombination
+	line     *moving.Line
+	worst    []moving.Extreme
+	at       moving.Placement
+	current  []float64
+	seq      uint64 // of the newest envelope asked for
 }
 
 // shownNumber is a number the form wrote: its text, and the value (SI)
@@ -181,6 +190,16 @@ func (mw *movingWindow) build() {
 		mw.quantityIndex = slices.Index(names, s)
 		mw.showLine()
 	}
+	mw.withSelect = widget.NewSelect(nil, func(s string) {
+		name := ""
+		if k := slices.Index(mw.withSelect.Options, s); k > 0 {
+			name = mw.withNames[k-1]
+		}
+		if name != mw.with {
+			mw.with = name
+			mw.modelChanged()
+		}
+	})
 	mw.targetSelect = widget.NewSelect(nil, nil)
 	mw.targetSelect.OnChanged = func(s string) {
 		mw.reaction = slices.Index(mw.targetSelect.Options, s) - 1
@@ -195,7 +214,8 @@ func (mw *movingWindow) build() {
 	mw.point = widget.NewEntry()
 	mw.point.SetPlaceHolder("under the mouse")
 	mw.point.OnSubmitted = mw.pinAt
-	top := newFlow(widget.NewLabel("Field"), wide(mw.quantity, 190), widget.NewLabel("Influence line of"), wide(mw.targetSelect, 380),
+	top := newFlow(widget.NewLabel("Field"), wide(mw.quantity, 190), widget.NewLabel("Envelope of"), wide(mw.withSelect, 300),
+		widget.NewLabel("Influence line of"), wide(mw.targetSelect, 380),
 		container.NewHBox(widget.NewLabel("at x"), wide(mw.point, 150)), widget.NewButton("Worst position", mw.toWorst))
 	hint := widget.NewLabel("Drag the train along the member (or ← and → after a click or Tab on the picture); the influence line follows the mouse, a click pins it to a point (click again to let go), or type the point's x and press Enter.")
 	hint.Wrapping = fyne.TextWrapWord
@@ -252,6 +272,23 @@ func (mw *movingWindow) refreshChoices() {
 	}
 	mw.targetSelect.Selected = opts[mw.reaction+1]
 	mw.targetSelect.Refresh()
+	with := []string{"the train alone"}
+	mw.withNames = nil
+	for _, cb := range mw.w.project.Model.Combinations {
+		for _, tf := range cb.Trains {
+			if mw.index >= 0 && tf.Train == mw.index {
+				mw.withNames = append(mw.withNames, cb.Name)
+				with = append(with, fmt.Sprintf("combination %q, train × %s", cb.Name, units.FormatNumber(tf.Factor)))
+			}
+		}
+	}
+	k := slices.Index(mw.withNames, mw.with)
+	if k < 0 {
+		mw.with = ""
+	}
+	mw.withSelect.Options = with
+	mw.withSelect.Selected = with[k+1]
+	mw.withSelect.Refresh()
 }
 
 // supportOf is the support index of reaction choice k (−1 for none).
@@ -505,6 +542,7 @@ func (mw *movingWindow) modelChanged() {
 	// its case; one the window still lets be refused (a case not yet
 	// given loads) has the same lines without its loads.
 	p := mw.w.canonical()
+	loaded := p // the combinations' cases need their loads
 	member, infl, err := report.InfluenceOf(&p)
 	if err != nil {
 		p.Model = moving.Unloaded(&p.Model)
@@ -529,16 +567,35 @@ func (mw *movingWindow) modelChanged() {
 		return
 	}
 	mw.seq++
-	seq, infl, mesh := mw.seq, mw.infl, mw.mesh
+	seq, infl, mesh, index, with := mw.seq, mw.infl, mw.mesh, mw.index, mw.with
 	go func() {
 		env, err := infl.Envelope(&t, mesh, nil)
-		mw.w.post(func() { mw.envelopeReady(seq, env, err) })
+		var tc *report.TrainCombination
+		if err == nil && with != "" {
+			tc, err = combinationOf(&loaded, index, infl, mesh, env, with)
+		}
+		mw.w.post(func() { mw.envelopeReady(seq, env, tc, err) })
 	}()
+}
+
+// combinationOf is the combination named name with train i's envelope e
+// on top of its cases, as the trains' results give it.
+func combinationOf(p *storage.Project, i int, in *moving.Influence, mesh fem.Mesh, e *moving.Envelope, name string) (*report.TrainCombination, error) {
+	tcs, err := report.TrainCombinations(p, i, in, mesh, e)
+	if err != nil {
+		return nil, err
+	}
+	for k := range tcs {
+		if tcs[k].Combination == name {
+			return &tcs[k], nil
+		}
+	}
+	return nil, fmt.Errorf("combination %q does not take the train", name)
 }
 
 // envelopeReady takes an envelope found in the background, unless the
 // model or the train changed since it was asked for.
-func (mw *movingWindow) envelopeReady(seq uint64, env *moving.Envelope, err error) {
+func (mw *movingWindow) envelopeReady(seq uint64, env *moving.Envelope, tc *report.TrainCombination, err error) {
 	if seq != mw.seq {
 		return
 	}
@@ -546,14 +603,18 @@ func (mw *movingWindow) envelopeReady(seq uint64, env *moving.Envelope, err erro
 		mw.status.SetText(err.Error())
 		return
 	}
-	mw.env = env
+	mw.env, mw.combined = env, tc
+	with := ""
+	if tc != nil {
+		mw.env, with = tc.Envelope, fmt.Sprintf(", with the cases of combination %q", tc.Combination)
+	}
 	if !mw.pinned {
 		// The line starts where the field is largest.
-		hi, _ := env.Worst(moving.EnvelopeQuantities[mw.quantityIndex])
+		hi, _ := mw.peaks()
 		mw.pointX = hi.X
 	}
-	mw.status.SetText(fmt.Sprintf("%s: %d positions in each direction it moves, %s apart",
-		mw.w.project.Trains[mw.index].Label(mw.index), env.Positions, mw.w.units.Format(units.Position, env.Step)))
+	mw.status.SetText(fmt.Sprintf("%s%s: %d positions in each direction it moves, %s apart",
+		mw.w.project.Trains[mw.index].Label(mw.index), with, env.Positions, mw.w.units.Format(units.Position, env.Step)))
 	mw.showLine()
 	mw.toWorst()
 }
@@ -631,12 +692,27 @@ func (mw *movingWindow) toWorst() {
 	case len(mw.worst) > 0:
 		mw.at = mw.worst[0].Placement
 	case mw.env != nil:
-		hi, _ := mw.env.Worst(moving.EnvelopeQuantities[mw.quantityIndex])
+		hi, _ := mw.peaks()
 		mw.at = hi.Placement
 	default:
 		return
 	}
 	mw.followTrain()
+}
+
+// peaks are the largest and the smallest value of the field shown over
+// the member and every position: the combination's, between the stations
+// too, when one is shown.
+func (mw *movingWindow) peaks() (hi, lo moving.Extreme) {
+	q := moving.EnvelopeQuantities[mw.quantityIndex]
+	if mw.combined != nil {
+		for _, w := range mw.combined.Worst {
+			if w.Quantity == q {
+				return w.Largest.Extreme(), w.Smallest.Extreme()
+			}
+		}
+	}
+	return mw.env.Worst(q)
 }
 
 // dragTrain moves the train's front by dx metres from where the drag began,
@@ -652,7 +728,7 @@ func (mw *movingWindow) dragTrain(start moving.Placement, dx float64) {
 // followTrain solves the train where it stands, in closed form, and draws.
 func (mw *movingWindow) followTrain() {
 	mw.current = nil
-	if mw.env != nil && mw.index >= 0 {
+	if mw.env != nil && mw.index >= 0 && mw.combined == nil {
 		t := mw.w.project.Trains[mw.index]
 		tm := t.Model(&mw.w.project.Model, mw.at)
 		if e, err := fem.SolveExact(&tm); err == nil {
@@ -676,6 +752,10 @@ func (mw *movingWindow) input() canvas.MovingInput {
 	if mw.index >= 0 && mw.env != nil {
 		in.Train = &mw.w.project.Trains[mw.index]
 	}
+	if mw.combined != nil && mw.env != nil {
+		hi, lo := mw.peaks()
+		in.Combination, in.Peaks = mw.combined.Combination, []moving.Extreme{hi, lo}
+	}
 	return in
 }
 
@@ -693,7 +773,11 @@ func (mw *movingWindow) showReadout() {
 	if e := mw.env; e != nil {
 		s := nearestStation(e.Stations, x)
 		hi, lo := e.MaxAt[mw.quantityIndex][s], e.MinAt[mw.quantityIndex][s]
-		parts = append(parts, fmt.Sprintf("%s at the station x = %s over all positions: largest %s (front at %s %s), smallest %s (front at %s %s)", q,
+		what := q.String()
+		if mw.combined != nil {
+			what = fmt.Sprintf("combination %q with the train, %s", mw.combined.Combination, q)
+		}
+		parts = append(parts, fmt.Sprintf("%s at the station x = %s over all positions: largest %s (front at %s %s), smallest %s (front at %s %s)", what,
 			u.Format(units.Position, e.Stations[s]), u.Format(k, e.Max[mw.quantityIndex][s]), u.Format(units.Position, hi.Front), hi.Direction,
 			u.Format(k, e.Min[mw.quantityIndex][s]), u.Format(units.Position, lo.Front), lo.Direction))
 		if mw.current != nil {
@@ -702,7 +786,11 @@ func (mw *movingWindow) showReadout() {
 	}
 	if mw.line != nil && len(mw.worst) == 2 {
 		what := mw.line.Target.Describe(u.Format(units.Position, mw.line.Target.X))
-		parts = append(parts, fmt.Sprintf("the train's extremes of the %s: largest %s, smallest %s", what,
+		own := "the train's"
+		if mw.combined != nil {
+			own = "the train's own (no cases, no factor)"
+		}
+		parts = append(parts, fmt.Sprintf("%s extremes of the %s: largest %s, smallest %s", own, what,
 			u.Format(targetUnit(mw.line.Target), mw.worst[0].Value), u.Format(targetUnit(mw.line.Target), mw.worst[1].Value)))
 	}
 	mw.readout.SetText(strings.Join(parts, "; "))

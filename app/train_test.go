@@ -16,6 +16,7 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas/report"
+	"stave/fem"
 	"stave/fem/moving"
 	"stave/fem/units"
 	"stave/storage"
@@ -363,5 +364,59 @@ func TestMovingWindowTakesATypedPoint(t *testing.T) {
 	test.Tap(mw.pic)
 	if !mw.pinned || mw.point.Text != "0" {
 		t.Errorf("after a click pinned the point at the left end: pinned %v, the field reads %q", mw.pinned, mw.point.Text)
+	}
+}
+
+// The window shows a combination that takes the train, its cases at their
+// worst arrangement with the train on top, as the command line's trains'
+// results give it (report.TrainEnvelopes), and back the train alone.
+func TestMovingWindowShowsACombinationWithItsTrain(t *testing.T) {
+	p, err := storage.Load("../testdata/two_span_cases.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	p.Trains = []moving.Train{{Name: "pair", Axles: []moving.Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}}}
+	p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 0, Factor: 1.5}}
+	results, err := report.TrainEnvelopes(p)
+	if err != nil || len(results) != 1 || len(results[0].Combinations) != 1 {
+		t.Fatalf("the command line's trains' results: %v, %+v", err, results)
+	}
+	want := results[0].Combinations[0]
+	w, q := newTestWindow(t, p)
+	w.showMovingLoads()
+	mw := w.moving
+	q.waitFor(t, "the train's envelope", func() bool { return mw.env != nil })
+	alone := mw.env
+	if n := len(mw.withSelect.Options); n != 2 {
+		t.Fatalf("the envelope choices are %q, want the train alone and the combination", mw.withSelect.Options)
+	}
+	mw.withSelect.SetSelectedIndex(1)
+	q.waitFor(t, "the combination's envelope", func() bool { return mw.combined != nil })
+	in := mw.input()
+	if in.Combination != want.Combination || in.Current != nil {
+		t.Errorf("the picture shows combination %q (the train's own field %v), want %q and no field of the train alone", in.Combination, in.Current != nil, want.Combination)
+	}
+	k := slices.Index(moving.EnvelopeQuantities, moving.EnvelopeQuantities[mw.quantityIndex])
+	for s := range want.Envelope.Stations {
+		if in.Envelope.Max[k][s] != want.Envelope.Max[k][s] || in.Envelope.Min[k][s] != want.Envelope.Min[k][s] {
+			t.Fatalf("at station %d the window's envelope is %g to %g, the command line's %g to %g", s,
+				in.Envelope.Min[k][s], in.Envelope.Max[k][s], want.Envelope.Min[k][s], want.Envelope.Max[k][s])
+		}
+	}
+	for _, qw := range want.Worst {
+		if qw.Quantity != moving.EnvelopeQuantities[mw.quantityIndex] {
+			continue
+		}
+		if len(in.Peaks) != 2 || in.Peaks[0].Value != qw.Largest.Value || in.Peaks[1].Value != qw.Smallest.Value {
+			t.Errorf("the picture marks %+v, the command line's extremes are %g and %g", in.Peaks, qw.Largest.Value, qw.Smallest.Value)
+		}
+	}
+	if !strings.Contains(mw.readout.Text, `combination "both"`) {
+		t.Errorf("the readout does not say it reads the combination: %q", mw.readout.Text)
+	}
+	mw.withSelect.SetSelectedIndex(0)
+	q.waitFor(t, "the train alone", func() bool { return mw.env != nil && mw.combined == nil })
+	if mw.current == nil || !reflect.DeepEqual(mw.env.Max, alone.Max) {
+		t.Error("back to the train alone, the window does not show its own envelope and field")
 	}
 }

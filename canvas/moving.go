@@ -28,6 +28,12 @@ type MovingInput struct {
 	Envelope *moving.Envelope
 	Quantity int
 	Current  []float64
+	// Combination names the combination whose envelope Envelope is, the
+	// train on top of its cases ("" for the train alone), and Peaks are
+	// its largest and smallest value of the quantity drawn over the whole
+	// member, between the stations too (nil: the envelope's own).
+	Combination string
+	Peaks       []moving.Extreme
 	// Line is the influence line drawn, with Worst the train's extremes for
 	// its target (their positions marked); nil for no line.
 	Line  *moving.Line
@@ -168,7 +174,11 @@ func (b *builder) envelopeBand(in MovingInput, bands *MovingBands) {
 	mid, per := fitRange(vmin, vmax, bands.EnvelopeTop+TextHeight(labelSize)+14, bands.EnvelopeBottom-4)
 	bands.EnvelopeBaseline, bands.EnvelopePerPixel = mid, per
 	toY := func(v float64) float32 { return mid - float32(v/per) }
-	b.text(fmt.Sprintf("%s: envelope over every position (shaded), and where the train stands; positive up", info.Name), 8, bands.EnvelopeTop, labelSize, 0, 0, inkColour, true)
+	caption := fmt.Sprintf("%s: envelope over every position (shaded), and where the train stands; positive up", info.Name)
+	if in.Combination != "" {
+		caption = fmt.Sprintf("%s: envelope of combination %q, its cases and the train at every position (shaded); positive up", info.Name, in.Combination)
+	}
+	b.text(caption, 8, bands.EnvelopeTop, labelSize, 0, 0, inkColour, true)
 	upper, lower := make([]Point, len(e.Stations)), make([]Point, len(e.Stations))
 	for s, x := range e.Stations {
 		upper[s] = Point{b.sx(x), toY(hi[s])}
@@ -187,6 +197,9 @@ func (b *builder) envelopeBand(in MovingInput, bands *MovingBands) {
 		b.line(loadColour, 1.8, cur...)
 	}
 	whi, wlo := e.Worst(q)
+	if len(in.Peaks) == 2 {
+		whi, wlo = in.Peaks[0], in.Peaks[1]
+	}
 	size := max(math.Abs(whi.Value), math.Abs(wlo.Value))
 	for _, w := range []struct {
 		ex moving.Extreme

@@ -67,6 +67,13 @@ type TrainExtreme struct {
 	FE        *float64 `json:"finite_elements,omitempty"`
 }
 
+// Extreme is e as the envelope's extremes are: its value, where it is and
+// the position that gives it.
+func (e TrainExtreme) Extreme() moving.Extreme {
+	d, _ := moving.ParseDirection(e.Direction)
+	return moving.Extreme{Value: e.Value, X: e.X, Placement: moving.Placement{Direction: d, Front: e.Front}}
+}
+
 // QuantityWorst are the extremes of one quantity over a train's positions.
 type QuantityWorst struct {
 	Quantity fem.Quantity `json:"quantity"`
@@ -236,6 +243,13 @@ func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem
 		}
 	}
 	return out, nil
+}
+
+// TrainCombinations are the combinations of p that take train i, each
+// with e, the train's envelope on in and mesh, factored on top of its
+// cases, as the trains' results give them.
+func TrainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem.Mesh, e *moving.Envelope) ([]TrainCombination, error) {
+	return trainCombinations(p, i, in, mesh, e, func() (*fem.CombinationSolutions, error) { return arrangedSolutions(&p.Model) })
 }
 
 // arrangedSolutions are the load sets of m's combinations, every case and

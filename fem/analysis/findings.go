@@ -128,7 +128,7 @@ func (a *Analysis) Findings() []Finding {
 		for _, tf := range cb.Trains {
 			train := a.trainLabel(tf.Train)
 			out = append(out, finding(CodeTrainNotChecked, fmt.Sprintf("combination %q with moving load %s", cb.Name, train),
-				fmt.Sprintf("Combination %q takes moving load %s with a factor of %s. The design checks and the drawn envelope take the combination's cases alone; the combination with the train at its worst positions is in the trains' results (stave solve, stave influence --envelope). Check those values against your limits.", cb.Name, train, units.FormatNumber(tf.Factor))))
+				fmt.Sprintf("Combination %q takes moving load %s with a factor of %s. The design checks and the drawn envelope take the combination's cases alone; the combination with the train at its worst positions is in the trains' results (stave solve, stave influence --envelope, and Study > Moving loads… in the window, its envelope of the combination). Check those values against your limits.", cb.Name, train, units.FormatNumber(tf.Factor))))
 		}
 	}
 	if msg := a.Exact.Warning(); msg != "" {
