@@ -718,8 +718,14 @@ func (b *builder) problem(lay layoutBands) (box func()) {
 
 // reactions labels each support with the force it exerts.
 func (b *builder) reactions(y float32) {
-	for _, r := range b.in.Solution.Reactions {
+	rs := b.in.Solution.Reactions
+	for k, r := range rs {
 		x := b.sx(r.X)
+		// A support within crowdedSupports pixels of the next one on
+		// either side is labelled at its own spots or not at all: a
+		// thousand supports in a few pixels each searched the drawing for
+		// room (40,000 supports took 52 s to export as a sheet).
+		crowded := k > 0 && x-b.sx(rs[k-1].X) < crowdedSupports || k+1 < len(rs) && b.sx(rs[k+1].X)-x < crowdedSupports
 		var parts []string
 		names := [3]string{"Rx ", "Ry ", "Mr "}
 		qs := [3]units.Kind{units.Force, units.Force, units.Moment}
@@ -730,12 +736,19 @@ func (b *builder) reactions(y float32) {
 		}
 		ly := y + supportHeight + 6
 		for _, p := range parts {
-			rr, _ := b.place(label{lines: []string{p}, size: smallSize, colour: supportColour, at: Point{x, ly},
-				spots: []labelSpot{{x, ly, 0.5, 0}, {x + 24, ly, 0, 0}, {x - 24, ly, 1, 0}}})
+			rr, ok := b.place(label{lines: []string{p}, size: smallSize, colour: supportColour, at: Point{x, ly},
+				spots: []labelSpot{{x, ly, 0.5, 0}, {x + 24, ly, 0, 0}, {x - 24, ly, 1, 0}}, optional: crowded})
+			if !ok {
+				break
+			}
 			ly = rr.y1 + 2
 		}
 	}
 }
+
+// crowdedSupports is the distance, px, below which neighbouring supports
+// stand too close for each reaction to look for room away from its own.
+const crowdedSupports = 2
 
 func (b *builder) supportHolds(i int, d fem.Dof) bool {
 	if i < 0 || i >= len(b.in.Model.Supports) {

@@ -206,3 +206,34 @@ func TestMemberEndHandleOnlyInTheWindow(t *testing.T) {
 		t.Error("the window draws no handle at the member's end")
 	}
 }
+
+// Supports closer together than a pixel label their reactions where room
+// is left beside them or not at all, each below the member: a fixed
+// support whose first reaction found no room had its next one looked for
+// at the top of the drawing, and a thousand such labels each searched the
+// drawing for room. The member is demo data.
+func TestCrowdedReactionsStayBelowTheMember(t *testing.T) {
+	m := demoModel(0)
+	m.Supports = nil
+	for i := range 2001 {
+		m.Supports = append(m.Supports, fem.Support{X: m.Length() * float64(i) / 2000, Kind: fem.Fixed})
+	}
+	m.PointLoads = nil
+	m.Mesh.Elements = 0
+	in := solved(t, m)
+	v := NewView(600, 700)
+	v.Fit(m)
+	s := Build(in, v)
+	labelled := 0
+	for _, it := range s.Items {
+		if it.Kind == Text && (strings.HasPrefix(it.Text, "Rx ") || strings.HasPrefix(it.Text, "Ry ") || strings.HasPrefix(it.Text, "Mr ")) {
+			labelled++
+			if it.At.Y <= s.MemberY {
+				t.Errorf("reaction label %q at y = %g lies above the member (y = %g)", it.Text, it.At.Y, s.MemberY)
+			}
+		}
+	}
+	if labelled == 0 {
+		t.Error("no reaction is labelled at all")
+	}
+}
