@@ -2,6 +2,7 @@ package main
 
 import (
 	"context"
+	"errors"
 	"fmt"
 	"io"
 
@@ -41,6 +42,9 @@ func convergeCommand(args []string, stdout io.Writer) error {
 	}
 	ctx := context.Background()
 	table, err := study.Convergence(ctx, &p.Model, *maxPer)
+	if tf := (study.TooFineError{}); errors.As(err, &tf) {
+		return usageError{fmt.Sprintf("--max %d: %s: %v", *maxPer, path, err)}
+	}
 	if err != nil {
 		return modelError{fmt.Errorf("%s: %w", path, err)}
 	}

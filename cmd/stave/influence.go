@@ -1,6 +1,7 @@
 package main
 
 import (
+	"flag"
 	"fmt"
 	"io"
 	"path/filepath"
@@ -58,8 +59,17 @@ func influenceCommand(args []string, stdout io.Writer) error {
 	if err != nil {
 		return err
 	}
+	if err := strayFlags(fs, target); err != nil {
+		return err
+	}
 	if err := onMember(target, *at, &p.Model, sys); err != nil {
-		return modelError{fmt.Errorf("%s: %w", path, err)}
+		return usageError{fmt.Sprintf("%s: %v", path, err)}
+	}
+	switch n := len(p.Trains); {
+	case *sheet != "" && n == 0:
+		return usageError{fmt.Sprintf("--sheet: %s has no train to put on a sheet: add one under \"trains\" (docs/format.md)", path)}
+	case set(fs, "train") && *train > n:
+		return usageError{fmt.Sprintf("--train %d: %s has %d trains; count them from 1 along the file", *train, path, n)}
 	}
 	r, err := report.Influence(p, report.InfluenceRequest{Target: target, Points: *points, FiniteElements: true, Envelope: *envelope || *out != "" || *sheet != ""})
 	if err != nil {
@@ -105,6 +115,9 @@ func parseTarget(quantity, at, side string, support int, motion string, sys unit
 	if !ok {
 		return t, usageError{fmt.Sprintf("--quantity %q is not a quantity: use w, theta, V, M, sigma_bending, u, N, sigma_axial, or reaction", quantity)}
 	}
+	if q == fem.QCombinedStress {
+		return t, usageError{"--quantity: the combined stress is not linear in the loads (it takes the larger fibre): it has no influence line; ask for sigma_bending or sigma_axial"}
+	}
 	if at == "" {
 		return t, usageError{fmt.Sprintf("the %s needs --at: where along the member to read it", q)}
 	}
@@ -123,14 +136,31 @@ func parseTarget(quantity, at, side string, support int, motion string, sys unit
 	return t, nil
 }
 
-// onMember refuses a target off member m, or a reaction its support does
-// not give, in units sys (fem/moving says the same in m). The place is
-// written as typed in at, the member's length to ten figures: 4.00001 m
-// typed for a member of 4 m must not read "4.000 m is not on 0 to 4.000 m".
+// strayFlags refuses a flag that the target does not read: --at and
+// --side belong to a quantity along the member, --support and --motion to
+// a reaction (given to the other, they were ignored without a word).
+func strayFlags(fs *flag.FlagSet, t moving.Target) error {
+	stray, wants := []string{"support", "motion"}, "a reaction"
+	if t.Reaction {
+		stray, wants = []string{"at", "side"}, "a quantity read along the member"
+	}
+	for _, name := range stray {
+		if set(fs, name) {
+			return usageError{fmt.Sprintf("--%s is for %s: leave it out for the %s", name, wants, t)}
+		}
+	}
+	return nil
+}
+
+// onMember refuses a target off member m, a support it does not have, or
+// a reaction its support does not give, in units sys (fem/moving says the
+// same in m). The place is written as typed in at, the member's length to
+// ten figures: 4.00001 m typed for a member of 4 m must not read "4.000 m
+// is not on 0 to 4.000 m".
 func onMember(t moving.Target, at string, m *fem.Model, sys units.System) error {
 	if t.Reaction {
 		if t.Support < 0 || t.Support >= len(m.Supports) {
-			return nil // fem/moving says there is no such support; no unit in it
+			return fmt.Errorf("--support %d: the member has %d supports", t.Support+1, len(m.Supports))
 		}
 		sup := m.Supports[t.Support]
 		if !sup.Holds(t.Motion) {

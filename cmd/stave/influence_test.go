@@ -232,6 +232,12 @@ func TestInfluenceCommandValueAtTheJump(t *testing.T) {
 	}
 }
 
+// Flags the model cannot answer are misuse of the command line (exit 2,
+// README "Exit status": 1 is a model refused, and the model is sound): a
+// point off the member, a support or train the file does not have, a
+// motion the support does not hold, a quantity with no influence line.
+// They exited 1, as if the model were refused; flags the target does not
+// read (--support for a moment, --at for a reaction) were ignored.
 func TestInfluenceCommandMisuse(t *testing.T) {
 	for _, c := range []struct {
 		args []string
@@ -243,23 +249,30 @@ func TestInfluenceCommandMisuse(t *testing.T) {
 		{[]string{"../../testdata/demo.json", "--quantity", "torque", "--at", "1"}, 2, "not a quantity"},
 		{[]string{"../../testdata/demo.json", "--quantity", "V", "--at", "1", "--side", "up"}, 2, "use left or right"},
 		{[]string{"../../testdata/demo.json", "--quantity", "reaction"}, 2, "needs --support"},
-		{[]string{"../../testdata/demo.json", "--quantity", "M", "--at", "9"}, 1, "not on the member"},
+		{[]string{"../../testdata/demo.json", "--quantity", "M", "--at", "9"}, 2, "not on the member"},
 		// Just past the end, every digit: it said "x = 5.5 m is not on the member (0 to 5.5 m)".
-		{[]string{"../../testdata/demo.json", "--quantity", "M", "--at", "5.5000000001"}, 1, "x = 5.5000000001 m is not on the member (0 to 5.5 m)"},
+		{[]string{"../../testdata/demo.json", "--quantity", "M", "--at", "5.5000000001"}, 2, "x = 5.5000000001 m is not on the member (0 to 5.5 m)"},
 		// Trains count from 1: --train 0 was "there is no train 0: the file has 2", exit 1.
 		{[]string{"../../testdata/moving/runway.json", "--quantity", "M", "--at", "1", "--train", "0", "--out", "x.png"}, 2, "--train 0: count the trains from 1"},
-		{[]string{"../../testdata/demo.json", "--quantity", "sigma_combined", "--at", "1"}, 1, "not linear"},
-		{[]string{"../../testdata/demo.json", "--quantity", "reaction", "--support", "2", "--motion", "rotation"}, 1, "does not hold the rotation"},
+		{[]string{"../../testdata/demo.json", "--quantity", "sigma_combined", "--at", "1"}, 2, "not linear"},
+		{[]string{"../../testdata/demo.json", "--quantity", "reaction", "--support", "2", "--motion", "rotation"}, 2, "does not hold the rotation"},
 		// In the units asked for: it said "x = 30.48 m is not on the member (0 to
 		// 4 m)" for --at 100 under US (100 ft = 30.48 m, 4 m = 13.12335958 ft;
 		// 1 ft = 0.3048 m exactly, NIST SP 811 Appendix B).
-		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "M", "--at", "100"}, 1, "x = 100 ft is not on the member (0 to 13.12335958 ft)"},
-		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "M", "--at", "-2 in"}, 1, "x = -2 in is not on the member (0 to 13.12335958 ft)"},
+		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "M", "--at", "100"}, 2, "x = 100 ft is not on the member (0 to 13.12335958 ft)"},
+		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "M", "--at", "-2 in"}, 2, "x = -2 in is not on the member (0 to 13.12335958 ft)"},
 		// Feet and inches: 13' 2" = 158 in = 4.0132 m, past the 4 m span (1 in =
 		// 0.0254 m exactly, NIST SP 811 Appendix B).
-		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "M", "--at", `13' 2"`}, 1, `x = 13' 2" is not on the member (0 to 13.12335958 ft)`},
+		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "M", "--at", `13' 2"`}, 2, `x = 13' 2" is not on the member (0 to 13.12335958 ft)`},
 		{[]string{"../../testdata/simply_supported_uniform.json", "--quantity", "M", "--at", "2 kips"}, 2, "--at: '2 kips' is a force, but position is expected here"},
-		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "reaction", "--support", "2", "--motion", "rotation"}, 1, "support 2 (roller at x = 13.12 ft) does not hold the rotation"},
+		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "reaction", "--support", "2", "--motion", "rotation"}, 2, "support 2 (roller at x = 13.12 ft) does not hold the rotation"},
+		{[]string{"../../testdata/demo.json", "--quantity", "reaction", "--support", "9"}, 2, "--support 9: the member has"},
+		{[]string{"../../testdata/moving/runway.json", "--quantity", "M", "--at", "1", "--train", "3"}, 2, "--train 3: ../../testdata/moving/runway.json has 2 trains"},
+		{[]string{"../../testdata/simply_supported_uniform.json", "--quantity", "M", "--at", "1", "--sheet", "x.pdf"}, 2, "has no train to put on a sheet"},
+		{[]string{"../../testdata/demo.json", "--quantity", "M", "--at", "1", "--support", "2"}, 2, "--support is for a reaction"},
+		{[]string{"../../testdata/demo.json", "--quantity", "M", "--at", "1", "--motion", "axial"}, 2, "--motion is for a reaction"},
+		{[]string{"../../testdata/demo.json", "--quantity", "reaction", "--support", "1", "--at", "1"}, 2, "--at is for a quantity read along the member"},
+		{[]string{"../../testdata/demo.json", "--quantity", "reaction", "--support", "1", "--side", "left"}, 2, "--side is for a quantity read along the member"},
 	} {
 		code, _, stderr := runStave(t, append([]string{"influence"}, c.args...)...)
 		if code != c.code || !strings.Contains(stderr, c.says) {
@@ -289,7 +302,7 @@ func TestInfluenceCommandPictureAndSheet(t *testing.T) {
 		t.Errorf("the sheet is not a PDF (%v)", err)
 	}
 	code, _, stderr = runStave(t, "influence", "../../testdata/moving/runway.json", "--quantity", "M", "--at", "2.4", "--train", "3", "--out", pic)
-	if code != 1 || !strings.Contains(stderr, "there is no train 3") {
+	if code != 2 || !strings.Contains(stderr, "--train 3: ../../testdata/moving/runway.json has 2 trains") {
 		t.Errorf("a third train of two: exit %d, stderr %q", code, stderr)
 	}
 }

@@ -488,6 +488,27 @@ func TestConvergeUnits(t *testing.T) {
 	}
 }
 
+// A --max whose finest mesh would not fit in memory is misuse (exit 2, README
+// "Exit status"): the model is sound and a smaller --max studies it. It
+// exited 1, as a refused model; a missing file stays exit 1.
+func TestConvergeMisuse(t *testing.T) {
+	for _, c := range []struct {
+		args []string
+		code int
+		says string
+	}{
+		{[]string{"--max", "100000000", "../../testdata/demo.json"}, 2, "--max 100000000: ../../testdata/demo.json: convergence study, the finest mesh of 67108864 elements per stretch: the mesh would need"},
+		{[]string{"--max", "0", "../../testdata/demo.json"}, 2, "--max must be at least 1"},
+		{[]string{"--target", "1.5", "../../testdata/demo.json"}, 2, "above 0 and below 1"},
+		{[]string{"--max", "4", "../../testdata/no such file.json"}, 1, "no such file.json"},
+	} {
+		code, _, stderr := runStave(t, append([]string{"converge"}, c.args...)...)
+		if code != c.code || !strings.Contains(stderr, c.says) {
+			t.Errorf("converge %v: exit %d, stderr %q; want exit %d saying %q", c.args, code, stderr, c.code, c.says)
+		}
+	}
+}
+
 func TestBenchQuickJSONKeys(t *testing.T) {
 	code, out, stderr := runStave(t, "bench", "--quick", "--json")
 	if code != 0 {

@@ -286,7 +286,11 @@ func (s *sweeps) cross(z basis, k int, dir float64) (basis, mat2, error) {
 			for i := range s.d {
 				v[i] = c0*z[0][i] + c1*z[1][i]
 			}
-			v[a.row] = 0
+			// v's own share of the reaction's direction is dropped: that
+			// direction joins the basis below, and a v left nearly along it
+			// made the basis degenerate once supports crowd together
+			// (three rollers 0.1 mm apart read as a mechanism).
+			v[a.row], v[a.into] = 0, 0
 			nv := norm(v)
 			if nv < degenerate {
 				return z, m, s.mechanism(k)
@@ -377,6 +381,31 @@ func (s *sweeps) solveJump(j int) error {
 			a[i][s.r+c] = s.zrPlus[j][c][i]
 		}
 	}
+	// The rows are scaled to the stretch, so that a stretch far shorter
+	// than the member (supports 0.1 mm apart on 10 m) is judged singular
+	// by its own sizes, not the member's: over a stretch of length h
+	// (relative to ℓ) a unit load makes V̂ of order 1, M̂ of h, θ of h²
+	// and ŵ of h³ (û of h, N̂ of 1). The columns are then equilibrated.
+	h := (s.keys[j+1] - s.keys[j]) / s.length
+	rowScale := [4]float64{1 / (h * h * h), 1 / (h * h), 1 / h, 1}
+	if s.problem == axialProblem {
+		rowScale = [4]float64{1 / h, 1}
+	}
+	var colScale [4]float64
+	for i := range s.d {
+		for c := range s.d {
+			a[i][c] *= rowScale[i]
+			colScale[c] = max(colScale[c], math.Abs(a[i][c]))
+		}
+	}
+	for c := range s.d {
+		if colScale[c] == 0 || math.IsInf(colScale[c], 0) || math.IsNaN(colScale[c]) {
+			return s.mechanism(j)
+		}
+		for i := range s.d {
+			a[i][c] /= colScale[c]
+		}
+	}
 	var lu smallLU
 	if !lu.factorize(a, s.d) {
 		return s.mechanism(j)
@@ -393,7 +422,14 @@ func (s *sweeps) solveJump(j int) error {
 		rhs[3][compW] = f / 6
 	}
 	for p := range rhs {
-		s.jump[j][p] = lu.solve(rhs[p])
+		for i := range s.d {
+			rhs[p][i] *= rowScale[i]
+		}
+		y := lu.solve(rhs[p])
+		for c := range s.d {
+			y[c] /= colScale[c]
+		}
+		s.jump[j][p] = y
 	}
 	return nil
 }

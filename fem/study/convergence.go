@@ -117,7 +117,7 @@ func Convergence(ctx context.Context, m *fem.Model, maxPerStretch int) (Table, e
 		finest *= 2
 	}
 	if err := fits(m, finest, len(keys)-1); err != nil {
-		return Table{}, fmt.Errorf("convergence study, the finest mesh of %d elements per stretch: %w", finest, err)
+		return Table{}, TooFineError{fmt.Errorf("convergence study, the finest mesh of %d elements per stretch: %w", finest, err)}
 	}
 	var t Table
 	for k := 1; k <= maxPerStretch; k *= 2 {
@@ -235,6 +235,14 @@ func Subdivide(nodes []float64, k int) []float64 {
 	}
 	return out
 }
+
+// TooFineError is the refusal of a study whose finest mesh, as asked for,
+// would not fit in memory: the request is at fault, not the model, which a
+// coarser study takes.
+type TooFineError struct{ Err error }
+
+func (e TooFineError) Error() string { return e.Err.Error() }
+func (e TooFineError) Unwrap() error { return e.Err }
 
 // fits refuses k elements on each of n stretches when the analysis of
 // that mesh would not fit in memory, as the loader refuses a file that

@@ -1,0 +1,80 @@
+package moving
+
+import (
+	"math"
+	"testing"
+
+	"stave/fem"
+)
+
+// proppedReaction is the reaction at the simply supported end of a beam of
+// span l fixed at the other end, per unit load down at a from the simply
+// supported end: R₁ = b²(a + 2l)/(2l³), b = l − a (AISC Manual, Beam
+// Diagrams and Formulas, "Beam fixed at one end, supported at other —
+// concentrated load at any point").
+func proppedReaction(l, a float64) float64 {
+	b := l - a
+	return b * b * (a + 2*l) / (2 * l * l * l)
+}
+
+// Supports 0.1 mm apart hold the member as one support that also holds its
+// rotation; the influence lines refused such members as mechanisms ("the
+// member cannot carry a load across the member near x = 0 m: ... add a
+// support") where stave solve solves them: a roller 0.1 mm from a fixed
+// end (the stretch between them was judged singular against the member's
+// scale, its pivot about (0.1 mm / 10 m)³), and three rollers 0.1 mm apart
+// (the sweep's basis grew degenerate). Each line is checked against the
+// handbook's propped cantilever, which the crowded supports make of each
+// span to within about (0.1 mm)/span.
+func TestCrowdedSupportsInfluenceLines(t *testing.T) {
+	const eps = 1e-4 // m
+	for _, c := range []struct {
+		name   string
+		m      *fem.Model
+		target Target
+		want   func(s float64) float64
+	}{
+		{
+			// Fixed at x = 0 (a roller 0.1 mm beside it), supported at 10 m:
+			// the prop's reaction, a = 10 − s from it.
+			"roller 0.1 mm from a fixed end",
+			beam(10, fem.Support{X: 0, Kind: fem.Fixed}, fem.Support{X: eps, Kind: fem.Roller}, fem.Support{X: 10, Kind: fem.Roller}),
+			Target{Reaction: true, Support: 2, Motion: fem.Transverse},
+			func(s float64) float64 { return proppedReaction(10, 10-s) },
+		},
+		{
+			// The same, the moment at 7.5 m: R·2.5 less the load's lever
+			// when it stands between 7.5 m and the prop.
+			"roller 0.1 mm from a fixed end, moment",
+			beam(10, fem.Support{X: 0, Kind: fem.Fixed}, fem.Support{X: eps, Kind: fem.Roller}, fem.Support{X: 10, Kind: fem.Roller}),
+			Target{Quantity: fem.QBendingMoment, X: 7.5},
+			func(s float64) float64 { return proppedReaction(10, 10-s)*2.5 - max(0, s-7.5) },
+		},
+		{
+			// Pinned at 0 and 10 m, three rollers 0.1 mm apart at midspan:
+			// two propped cantilevers of 5 m, fixed at the middle; a load on
+			// the right one gives the left end no reaction.
+			"three rollers 0.1 mm apart",
+			beam(10, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: 5, Kind: fem.Roller}, fem.Support{X: 5 + eps, Kind: fem.Roller},
+				fem.Support{X: 5 + 2*eps, Kind: fem.Roller}, fem.Support{X: 10, Kind: fem.Roller}),
+			Target{Reaction: true, Support: 0, Motion: fem.Transverse},
+			func(s float64) float64 {
+				if s >= 5 {
+					return 0
+				}
+				return proppedReaction(5, s)
+			},
+		},
+	} {
+		l, err := influence(t, c.m).Line(c.target)
+		if err != nil {
+			t.Errorf("%s: %v", c.name, err)
+			continue
+		}
+		for _, s := range []float64{0.5, 1, 2.5, 4, 4.9, 5.5, 6, 7.5, 8, 9.5} {
+			if got, want := l.At(s, fem.Right), c.want(s); math.Abs(got-want) > 1e-4 {
+				t.Errorf("%s: %s for a unit load at s = %g: %.8g, want %.8g", c.name, c.target, s, got, want)
+			}
+		}
+	}
+}
