@@ -163,6 +163,39 @@ func TestHingeAtSupportRefused(t *testing.T) {
 	}
 }
 
+// The refusal of a hinge at a support that holds the rotation must give
+// advice that leads to a model the loader takes: a pure hinge over a pinned
+// or roller support is refused in its turn (TestHingeAtSupportRefused), so
+// only a semi-rigid joint may be told to choose one of those kinds.
+func TestHingeAtSupportHoldingRotationAdvice(t *testing.T) {
+	for _, tc := range []struct {
+		name      string
+		stiffness float64
+		want, not string
+	}{
+		{"pure hinge", 0, "move the hinge a little off the support", "(pinned, roller)"},
+		{"semi-rigid joint", 1e6, "(pinned, roller)", "move the hinge a little off the support"},
+	} {
+		m := &Model{
+			Segments:   []Segment{testSegment(0, 8)},
+			Supports:   []Support{{X: 0, Kind: Pinned}, {X: 4, Kind: Fixed}, {X: 8, Kind: Roller}},
+			Hinges:     []Hinge{{X: 4, Stiffness: tc.stiffness}},
+			PointLoads: []PointLoad{{X: 2, Transverse: -1e3}},
+		}
+		err := m.Validate()
+		if err == nil || !strings.Contains(err.Error(), tc.want) || strings.Contains(err.Error(), tc.not) {
+			t.Errorf("%s: got %v, want advice with %q and without %q", tc.name, err, tc.want, tc.not)
+		}
+		// Following the advice to a pinned support must be taken for the semi-rigid joint.
+		if tc.stiffness > 0 {
+			m.Supports[1].Kind = Pinned
+			if err := m.Validate(); err != nil {
+				t.Errorf("%s over a pinned support: %v", tc.name, err)
+			}
+		}
+	}
+}
+
 // A point moment C on a hinge turns only one of the two parts it joins, and
 // the model cannot say which: the finite element solution put it on the
 // left part and the exact one on the right, so the two disagreed by the

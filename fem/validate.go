@@ -591,7 +591,13 @@ func (v *validator) hinges(m *Model, lengthKnown bool) {
 			v.add(at, fmt.Sprintf("hinges %d and %d %s: keep one hinge per point", j+1, i+1, atOnePoint(m.Hinges[j].X, h.X)))
 		}
 		if k := turning[i]; k >= 0 {
-			v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), which holds the rotation: it cannot say which side the support holds; move the hinge off the support, or choose a support kind that lets the member turn (pinned, roller)", i+1, k+1, fmtMetres(h.X)))
+			// A pure hinge over a support that lets the member turn is
+			// refused too (below): only a semi-rigid joint may go there.
+			advice := "move the hinge a little off the support, to the side the support is not to hold"
+			if h.Stiffness > 0 {
+				advice = "move the hinge off the support, or choose a support kind that lets the member turn (pinned, roller)"
+			}
+			v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), which holds the rotation: it cannot say which side the support holds; %s", i+1, k+1, fmtMetres(h.X), advice))
 		}
 		if k := propping[i]; k >= 0 && h.Stiffness == 0 {
 			v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), a %s support that already lets the member turn there: a pure hinge would cut the member into separate spans; check each span as its own member, move the hinge into the span, or give it a rotational stiffness for a semi-rigid joint over the support", i+1, k+1, fmtMetres(h.X), m.Supports[k].Kind))

@@ -233,25 +233,30 @@ func bucklingChecks(p *Probe, o Options) []Result {
 			out = append(out, r)
 			continue
 		}
-		rigidity, stepped := smallestRigidity(p.model, c.a, c.b)
+		rigidity, shear, stepped := smallestRigidity(p.model, c.a, c.b)
 		length := c.b - c.a
-		r.Limit = EulerLoad(rigidity, c.factor.Design, length)
-		theoretical := EulerLoad(rigidity, c.factor.Theoretical, length)
+		r.Limit = ShearReduced(EulerLoad(rigidity, c.factor.Design, length), shear)
+		theoretical := ShearReduced(EulerLoad(rigidity, c.factor.Theoretical, length), shear)
 		utilisation := compression / r.Limit
 		r.Status = Pass
 		if utilisation > 1 {
 			r.Status = Fail
 		}
 		figures := LimitFigures(o.Units, units.Force, compression, r.Limit)
-		r.Message = fmt.Sprintf("Utilisation %s: the largest compression %s at x = %s, from %s, against the Euler load π²EI/(KL)² = %s, with K = %.3g (recommended design value; theoretical K = %.3g gives %s) for %s; source: %s. %s",
-			UtilisationText(utilisation), o.Units.FormatFigures(units.Force, compression, figures), o.Units.Format(units.Position, where), p.fromWhat(), o.Units.FormatFigures(units.Force, r.Limit, figures),
+		critical := "the Euler load π²EI/(KL)² = " + o.Units.FormatFigures(units.Force, r.Limit, figures)
+		if !math.IsInf(shear, 1) {
+			critical = fmt.Sprintf("the critical load Pe/(1 + Pe/(G·As)) = %s of a column that deforms in shear (Pe = π²EI/(KL)² = %s, G·As = %s; %s)",
+				o.Units.FormatFigures(units.Force, r.Limit, figures), o.Units.Format(units.Force, EulerLoad(rigidity, c.factor.Design, length)), o.Units.Format(units.Force, shear), engesserSource)
+		}
+		r.Message = fmt.Sprintf("Utilisation %s: the largest compression %s at x = %s, from %s, against %s, with K = %.3g (recommended design value; theoretical K = %.3g gives %s) for %s; source: %s. %s",
+			UtilisationText(utilisation), o.Units.FormatFigures(units.Force, compression, figures), o.Units.Format(units.Position, where), p.fromWhat(), critical,
 			c.factor.Design, c.factor.Theoretical, o.Units.Format(units.Force, theoretical), c.note, c.factor.Source,
 			p.feBeside(o, units.Force, compression, p.fe.compression[k]))
 		if compression-h.least[k] > 1e-6*compression {
 			r.Message += "The compression varies along this part (self-weight or loads along it): the largest is taken as acting all along, which is conservative. "
 		}
 		if stepped {
-			r.Message += "The section changes along this part: the smallest EI is used, which is conservative. "
+			r.Message += "The section changes along this part: the smallest EI (and G·As) is used, which is conservative. "
 		}
 		r.Message += "The Euler load is an upper bound for a perfectly straight elastic column bent in the member's plane; real columns fail below it (initial crookedness, yielding), which design codes allow for with column curves. Buckling out of the plane, about the weak axis, or lateral-torsional buckling is not checked."
 		out = append(out, r)
@@ -259,18 +264,38 @@ func bucklingChecks(p *Probe, o Options) []Result {
 	return out
 }
 
+// engesserSource is where the critical load of a column that deforms in
+// shear comes from.
+const engesserSource = "Engesser's formula, Timoshenko & Gere, Theory of Elastic Stability, 2nd ed., §2.16 (from memory)"
+
+// ShearReduced is the critical load of a column whose Euler load is euler
+// and whose shear stiffness is shear = G·As (N), Pe/(1 + Pe/(G·As))
+// (engesserSource); euler itself for a column rigid in shear (shear +Inf).
+func ShearReduced(euler, shear float64) float64 {
+	if math.IsInf(shear, 1) {
+		return euler
+	}
+	return euler / (1 + euler/shear)
+}
+
 // smallestRigidity returns the smallest EI of the segments overlapping
-// [a, b] and whether it varies there.
-func smallestRigidity(m *fem.Model, a, b float64) (float64, bool) {
-	smallest, largest := math.Inf(1), 0.0
+// [a, b], the smallest shear stiffness G·As of those that deform in shear
+// (+Inf when none does), and whether the section varies there.
+func smallestRigidity(m *fem.Model, a, b float64) (ei, shear float64, varies bool) {
+	ei, shear = math.Inf(1), math.Inf(1)
+	largest, largestShear := 0.0, 0.0
 	for _, s := range m.Segments {
 		if s.End <= a || s.Start >= b {
 			continue
 		}
-		ei := s.Material.Elastic * s.Section.SecondMoment
-		smallest, largest = math.Min(smallest, ei), math.Max(largest, ei)
+		r, gas := s.Material.Elastic*s.Section.SecondMoment, math.Inf(1)
+		if f := s.ShearFlexibility(); f > 0 {
+			gas = r / f
+		}
+		ei, largest = math.Min(ei, r), math.Max(largest, r)
+		shear, largestShear = math.Min(shear, gas), math.Max(largestShear, gas)
 	}
-	return smallest, largest > smallest
+	return ei, shear, largest > ei || largestShear > shear
 }
 
 // negligible is the fraction of a force scale below which a force is

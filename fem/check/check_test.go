@@ -444,6 +444,57 @@ func TestBucklingOfAColumnWithAHinge(t *testing.T) {
 	}
 }
 
+// A column that deforms in shear buckles below its Euler load: with the
+// shear stiffness G·As the critical load is Pe/(1 + Pe/(G·As)) (Engesser's
+// formula; Timoshenko & Gere, Theory of Elastic Stability, 2nd ed., §2.16,
+// effect of shearing force on the critical load, from memory). A column of
+// segments takes the smallest EI and the smallest G·As of those that
+// deform in shear, which is conservative as the stepped column's EI is; a
+// segment without shear deformation is rigid in shear.
+func TestBucklingOfAColumnThatDeformsInShear(t *testing.T) {
+	const L, G, P = 3.0, 80e9, 2e6
+	cases := []struct {
+		name  string
+		shear []float64 // the shear area of each of the two halves, m²; 0: no shear deformation
+		gas   float64   // G·As the critical load takes, N; 0: none
+	}{
+		{"no shear deformation", []float64{0, 0}, 0},
+		{"a laced column", []float64{2e-5, 2e-5}, G * 2e-5},
+		{"one half shear-flexible", []float64{0, 1e-4}, G * 1e-4},
+		{"two shear areas", []float64{3e-4, 1e-4}, G * 1e-4},
+	}
+	for _, c := range cases {
+		m := beam(L, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L, Kind: fem.Roller}}, 0)
+		upper := m.Segments[0]
+		m.Segments[0].End, upper.Start = L/2, L/2
+		m.Segments = append(m.Segments, upper)
+		for i, as := range c.shear {
+			if as > 0 {
+				m.Segments[i].ShearDeformation = true
+				m.Segments[i].Section.ShearArea = as
+				m.Segments[i].Material.ShearModulus = G
+			}
+		}
+		m.PointLoads = []fem.PointLoad{{X: L, Axial: -P}}
+		s, e := solveBoth(t, &m)
+		r := find(t, Run(&m, s, e, Options{}), "Buckling")
+		euler := math.Pi * math.Pi * 200e9 * m.Segments[0].Section.SecondMoment / (L * L) // K = 1
+		want := euler
+		if c.gas > 0 {
+			want = euler / (1 + euler/c.gas)
+		}
+		if !near(r.Limit, want, 1e-12) {
+			t.Errorf("%s: Pcr %g N, want %g N (Pe = %g N)", c.name, r.Limit, want, euler)
+		}
+		if got := strings.Contains(r.Message, "shear"); got != (c.gas > 0) {
+			t.Errorf("%s: the message speaks of shear: %v, want %v: %s", c.name, got, c.gas > 0, r.Message)
+		}
+		if status := map[bool]Status{true: Fail, false: Pass}[P > want]; r.Status != status {
+			t.Errorf("%s: N/Pcr = %.3f, status %v, want %v", c.name, P/want, r.Status, status)
+		}
+	}
+}
+
 // A column whose compression varies along it, as a standing column's under
 // its own weight, is checked with its largest compression against the
 // Euler load of a constant force, which is conservative (a flagpole fixed
