@@ -66,12 +66,24 @@ func (s *exactStretch) shearTerms(t float64) (rotation, moment, shear float64) {
 // in [0, 1]: y(t) = Σ c_k·φ_k(t) + y_p(t), with order homogeneous solutions
 // φ_k whose constants c_k SolveExact finds and a particular solution y_p of
 // the stretch's loads. Working in t keeps all unknowns in metres whatever the
-// stretch length. The equations are written through basis, particular and
+// stretch length. The equations are written through bases, particular and
 // setConstants only, so a stretch of another kind brings its own
 // functions. Off a foundation a stretch is polynomial: φ_k = t^k and y_p a
 // polynomial, kept as one list of coefficients. On one, φ_k are the
 // foundation's (groundBasis) and y_p is linear, its coefficients of 1 and
 // t following the constants.
+//
+// A very short stretch that no supports bracket (taylorUnknowns) takes as
+// the unknowns of the equations c_k/unit^k instead, unit a power of two
+// near its length: its Taylor coefficients y^(k)(start)/k! in x but for
+// a factor (length/unit)^k between 2^(−k/2) and 2^(k/2) (on a foundation
+// those of the power series, which go as t^k/k! near t = 0).
+// Such a stretch passes its section actions on between its neighbours,
+// and in t its constants would carry h^k beside theirs: where an action's
+// balance row holds y^(d)/h^d of a stretch a ten-billionth of its
+// neighbour's length, equilibration, which scales a whole column at once,
+// cannot bring both to one size (a point load 1e-10 m from a support made
+// equations of condition 7e14, which were refused).
 type stretchSolution struct {
 	stiffness float64 // EA (N) for the bar, EI (N·m²) for the beam
 	// offset is added to the section action odeProblem.offsetAction names:
@@ -85,6 +97,9 @@ type stretchSolution struct {
 	coeff []float64
 	// ground is the basis on a foundation; its order is 0 off one.
 	ground groundBasis
+	// unit scales the unknowns of the equations, c_k/unit^k: 1, or for a
+	// stretch with Taylor unknowns a power of two near its length.
+	unit float64
 }
 
 // polynomial reports whether the solution is a polynomial in t.
@@ -120,15 +135,27 @@ func (s *stretchSolution) basis(k, d int, t float64) float64 {
 	return s.ground.derivative(k, d, t)
 }
 
-// bases sets v[k] to basis(k, d, t) for every k < len(v), at a
-// polynomial stretch's ends by copying monomialEnds.
+// bases sets v[k] to basis(k, d, t)·unit^k for every k < len(v), the
+// coefficient of the k-th unknown of the equations (c_k/unit^k), at a
+// polynomial stretch's ends from monomialEnds.
 func (s *stretchSolution) bases(d int, t float64, v []float64) {
 	if s.polynomial() && (t == 0 || t == 1) && d < 4 && len(v) <= 6 {
 		copy(v, monomialEnds[int(t)][d][:])
-		return
+	} else {
+		for k := range v {
+			v[k] = s.basis(k, d, t)
+		}
 	}
+	s.scaleUnknowns(v)
+}
+
+// scaleUnknowns multiplies v[k] by unit^k, exactly (unit is a power of
+// two).
+func (s *stretchSolution) scaleUnknowns(v []float64) {
+	f := 1.0
 	for k := range v {
-		v[k] = s.basis(k, d, t)
+		v[k] *= f
+		f *= s.unit
 	}
 }
 
@@ -162,8 +189,23 @@ func (s *stretchSolution) derivative(d int, t float64) float64 {
 	return v
 }
 
-// setConstants stores the homogeneous constants found for the stretch.
-func (s *stretchSolution) setConstants(c []float64) { copy(s.coeff[:s.order], c) }
+// setConstants stores the homogeneous constants c_k from the unknowns x
+// of the equations (c_k/unit^k), which it uses up.
+func (s *stretchSolution) setConstants(x []float64) {
+	s.scaleUnknowns(x)
+	copy(s.coeff[:s.order], x)
+}
+
+// useTaylorUnknowns makes the unknowns of the equations the Taylor
+// coefficients of a stretch of length h, where its basis functions go as
+// t^k near t = 0 (off a foundation, and on one in the power series): unit
+// is then the power of two nearest h, so the scaling is exact.
+func (s *stretchSolution) useTaylorUnknowns(h float64) {
+	if s.polynomial() || s.ground.scale <= groundSeriesLimit {
+		_, e := math.Frexp(h / math.Sqrt2)
+		s.unit = math.Ldexp(1, e)
+	}
+}
 
 // odeProblem is one of the two decoupled problems, written so that bar and
 // beam share the assembly. Its section actions are
@@ -230,6 +272,10 @@ type ExactStructure struct {
 	// condition is the larger condition estimate of the problems'
 	// equilibrated systems (Exact.Condition).
 	condition float64
+	// taylor says, per stretch and problem (bar, beam), that the
+	// unknowns of its equations are its Taylor coefficients
+	// (taylorUnknowns).
+	taylor [][2]bool
 }
 
 // exactProblem is one problem's layout and factorized matrix.
@@ -244,7 +290,7 @@ type exactProblem struct {
 // the assembly needed anyway. Only a factorization that fails, or that the
 // condition estimate refuses, returns no structure.
 func newExactStructure(p *Member) (*ExactStructure, *Exact, error) {
-	es := &ExactStructure{model: &p.model, keys: p.keys}
+	es := &ExactStructure{model: &p.model, keys: p.keys, taylor: taylorUnknowns(&p.model, p.keys)}
 	own := es.blank(&p.loads)
 	points := own.keyPoints(&p.model, &p.loads)
 	odes := []odeProblem{exactBar, exactBeam}
@@ -427,12 +473,54 @@ func (e *Exact) staticReactions(points []keyPoint) {
 func (es *ExactStructure) blank(l *Loads) *Exact {
 	e := &Exact{Condition: es.condition, model: es.model, keys: es.keys, stretches: make([]exactStretch, len(es.keys)-1), reactions: make([]Reaction, len(es.model.Supports))}
 	for j := range e.stretches {
-		e.stretches[j] = newStretch(es.model, l, j)
+		s := &e.stretches[j]
+		*s = newStretch(es.model, l, j)
+		if es.taylor[j][0] {
+			s.bar.useTaylorUnknowns(s.length)
+		}
+		if es.taylor[j][1] {
+			s.beam.useTaylorUnknowns(s.length)
+		}
 	}
 	for i, s := range es.model.Supports {
 		e.reactions[i] = Reaction{Support: i, X: s.X}
 	}
 	return e
+}
+
+// taylorLength is the length, relative to the member's, below which a
+// stretch may take Taylor unknowns (taylorUnknowns): on longer ones the
+// constants in t serve as well (a load 1 cm from a support of two spans
+// of 4 m gave condition 2e4 in t, 2e3 in Taylor unknowns).
+const taylorLength = 1e-3
+
+// taylorUnknowns says, per stretch between the key points keys of m and
+// per problem (bar, beam), whether the unknowns of the stretch's equations
+// are its Taylor coefficients (stretchSolution): where it is shorter than
+// taylorLength of the member and supports do not hold the problem's
+// motions (rigidly or by springs) at both its ends. Between two such
+// supports its section actions follow from how its ends move against
+// each other, not from balance with its neighbours alone, and the
+// constants in t, of the size of its end motions, are kept: between two
+// fixed supports a millimetre apart, Taylor coefficients of the moment
+// and the shear would be fixed by end motions 1e-6 and 1e-9 times their
+// size (condition 4e15 against 8e7).
+func taylorUnknowns(m *Model, keys []float64) [][2]bool {
+	e := Exact{keys: keys}
+	held := make([][2]bool, len(keys))
+	for _, s := range m.Supports {
+		k := e.keyIndex(s.X)
+		held[k][0] = held[k][0] || s.Holds(Axial)
+		held[k][1] = held[k][1] || s.Holds(Transverse) || s.Holds(Rotation)
+	}
+	short := taylorLength * keys[len(keys)-1]
+	out := make([][2]bool, len(keys)-1)
+	for j := range out {
+		for p := range out[j] {
+			out[j][p] = keys[j+1]-keys[j] < short && !(held[j][p] && held[j+1][p])
+		}
+	}
+	return out
 }
 
 // finite reports whether the reactions and the fields at the ends and middle
@@ -503,7 +591,7 @@ func newStretchSolution(order int, stiffness, h, l0, l1 float64) stretchSolution
 	scale := math.Pow(h, float64(order)) / stiffness
 	c[order] = scale * l0 / fallingFactorial(order, order)
 	c[order+1] = scale * (l1 - l0) / fallingFactorial(order+1, order+1)
-	return stretchSolution{stiffness: stiffness, order: order, coeff: c}
+	return stretchSolution{stiffness: stiffness, order: order, coeff: c, unit: 1}
 }
 
 // keyPoints gathers what acts at each key point of m under the loads l: the

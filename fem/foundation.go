@@ -208,7 +208,7 @@ func newGroundSolution(order int, stiffness, h, modulus, l0, l1 float64) stretch
 	} else {
 		g.scale = math.Sqrt(math.Sqrt(-g.cycle / 4))
 	}
-	return stretchSolution{stiffness: stiffness, order: order, coeff: c, ground: g}
+	return stretchSolution{stiffness: stiffness, order: order, coeff: c, ground: g, unit: 1}
 }
 
 // derivative is the d-th derivative in t of the k-th basis function at t.
