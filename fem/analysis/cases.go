@@ -651,6 +651,33 @@ func (c *Cases) arrangementWords(m *fem.Model, k int, on []int) string {
 	return strings.Join(parts, "; ")
 }
 
+// solutionWords name the load set whose solution the analysis's summary
+// and sketch are of, as words to follow a statement about it: ` in load
+// case "permanent"`, ` in combination "strength" with every span loaded`
+// (of the cases it places by span); "" without cases.
+func (c *Cases) solutionWords(m *fem.Model) string {
+	if c == nil {
+		return ""
+	}
+	k := c.shownCombination()
+	if k < 0 {
+		if c.Show.Index < 0 || c.Show.Index >= m.LoadSetCount() {
+			return ""
+		}
+		return fmt.Sprintf(" in load case %q", m.LoadSetName(c.Show.Index))
+	}
+	if k >= len(c.Combinations) {
+		return ""
+	}
+	cb := &c.Combinations[k]
+	for _, f := range cb.Factors {
+		if f.Case >= 0 && f.Case < len(m.Cases) && m.Cases[f.Case].BySpan {
+			return fmt.Sprintf(" in combination %q with every span loaded", cb.Name)
+		}
+	}
+	return fmt.Sprintf(" in combination %q", cb.Name)
+}
+
 // shownCombination is the combination whose solution the analysis shows
 // (the first for the envelope), or −1 for a load case.
 func (c *Cases) shownCombination() int {

@@ -579,3 +579,32 @@ func peak(f func(float64) float64, lo, hi float64) float64 {
 	}
 	return f((lo + hi) / 2)
 }
+
+// Under the envelope the coarse mesh's caution quotes the first
+// combination with every span loaded, whose solution the sketch and the
+// summary are of, and says so: on the three-span model it quoted a
+// smallest shear force of -55.44 kN beside the envelope's -56.44 kN
+// (a pattern of loaded spans) without naming either.
+func TestCoarseMeshNamesTheSolutionItQuotes(t *testing.T) {
+	m := load(t, "three_span_pattern.json")
+	for _, c := range []struct {
+		show Show
+		want string
+	}{
+		{Show{Kind: ShowEnvelope}, `in combination "strength" with every span loaded`},
+		{Show{Kind: ShowCombination, Index: 2}, `in combination "imposed alone" with every span loaded`},
+		{Show{Kind: ShowCase, Index: 0}, `in load case "permanent"`},
+	} {
+		a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions(), Show: c.show})
+		if err != nil || a.Err != nil {
+			t.Fatalf("%v, %v", err, a.Err)
+		}
+		f, ok := a.coarseMesh()
+		if !ok {
+			t.Fatalf("showing %+v: no coarse_mesh caution on the model's mesh of 8 elements a span", c.show)
+		}
+		if !strings.Contains(f.Message, c.want) {
+			t.Errorf("showing %+v the caution reads %q, want it to say %q", c.show, f.Message, c.want)
+		}
+	}
+}

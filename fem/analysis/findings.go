@@ -274,8 +274,8 @@ func (a *Analysis) coarseMesh() (Finding, bool) {
 			others = append(others, fmt.Sprintf("%s %.3g %%", e.Quantity, 100*e.Accuracy))
 		}
 	}
-	msg := fmt.Sprintf("FE and exact differ by %.3g %% of the largest %s at x = %s: the %s %s is %s at x = %s exactly, %s at x = %s in the finite element (FE) solution on this mesh. ",
-		100*worst.Accuracy, q.Name, u.Format(units.Position, at), which, q.Name,
+	msg := fmt.Sprintf("FE and exact differ by %.3g %% of the largest %s at x = %s%s: the %s %s is %s at x = %s exactly, %s at x = %s in the finite element (FE) solution on this mesh. ",
+		100*worst.Accuracy, q.Name, u.Format(units.Position, at), a.Cases.solutionWords(&a.Model), which, q.Name,
 		u.Format(q.Unit, exact), u.Format(units.Position, at), u.Format(q.Unit, fe), u.Format(units.Position, feAt))
 	if len(others) > 0 {
 		msg += "Also beyond 0.5 %: " + strings.Join(others, ", ") + ". "
