@@ -108,14 +108,32 @@ func elementLoadLines(nl *fem.NodalLoads, i int, u units.System) []string {
 		fmt.Sprintf("Element %d of %d, from %s to %s: h = %s.", i+1, len(nl.Elements), f(units.Position, e.Start), f(units.Position, e.End), f(units.Position, h)),
 		fmt.Sprintf("Line load across it, self-weight included: q₁ = %s at its start, q₂ = %s at its end, linear between.",
 			f(units.LineLoad, e.Transverse[0]), f(units.LineLoad, e.Transverse[1])),
-		fmt.Sprintf("%s, consistent loads fᵢ = ∫₀ʰ Nᵢ(x)·q(x) dx with the cubic Hermite shape functions Nᵢ:", capitalize(nl.Beam)),
-		fmt.Sprintf("F₁ = h·(7q₁ + 3q₂)/20 = %s %s × (7 × %s + 3 × %s) %s / 20 = %s", hs, lengthU, q1, q2, loadU, f(units.Force, e.Beam[0])),
-		fmt.Sprintf("M₁ = h²·(3q₁ + 2q₂)/60 = (%s %s)² × (3 × %s + 2 × %s) %s / 60 = %s", hs, lengthU, q1, q2, loadU, f(units.Moment, e.Beam[1])),
-		fmt.Sprintf("F₂ = h·(3q₁ + 7q₂)/20 = %s %s × (3 × %s + 7 × %s) %s / 20 = %s", hs, lengthU, q1, q2, loadU, f(units.Force, e.Beam[2])),
-		fmt.Sprintf("M₂ = −h²·(2q₁ + 3q₂)/60 = −(%s %s)² × (2 × %s + 3 × %s) %s / 60 = %s", hs, lengthU, q1, q2, loadU, f(units.Moment, e.Beam[3])),
-		fmt.Sprintf("Lumped instead: h·(q₁ + q₂)/4 = %s on each node and no moments. The moments M₁ and M₂ are what lumping loses; under a load that varies along the element the forces differ too.",
-			f(units.Force, e.Lumped[1])),
 	}
+	if e.Shear == 0 {
+		lines = append(lines,
+			fmt.Sprintf("%s, consistent loads fᵢ = ∫₀ʰ Nᵢ(x)·q(x) dx with the cubic Hermite shape functions Nᵢ:", capitalize(nl.Beam)),
+			fmt.Sprintf("F₁ = h·(7q₁ + 3q₂)/20 = %s %s × (7 × %s + 3 × %s) %s / 20 = %s", hs, lengthU, q1, q2, loadU, f(units.Force, e.Beam[0])),
+			fmt.Sprintf("M₁ = h²·(3q₁ + 2q₂)/60 = (%s %s)² × (3 × %s + 2 × %s) %s / 60 = %s", hs, lengthU, q1, q2, loadU, f(units.Moment, e.Beam[1])),
+			fmt.Sprintf("F₂ = h·(3q₁ + 7q₂)/20 = %s %s × (3 × %s + 7 × %s) %s / 20 = %s", hs, lengthU, q1, q2, loadU, f(units.Force, e.Beam[2])),
+			fmt.Sprintf("M₂ = −h²·(2q₁ + 3q₂)/60 = −(%s %s)² × (2 × %s + 3 × %s) %s / 60 = %s", hs, lengthU, q1, q2, loadU, f(units.Moment, e.Beam[3])))
+	} else {
+		// The interdependent interpolation element of a segment with shear
+		// deformation (fem.ElementLoad.Shear): its shape functions' integrals
+		// against the linear load, which φ = 0 takes back to the Hermite ones.
+		phi := units.FormatNumber(e.Shear)
+		lines = append(lines,
+			fmt.Sprintf("Beam element with shear deformation (interdependent interpolation), φ = 12·EI/(G·As·h²) = %s; consistent loads fᵢ = ∫₀ʰ Nᵢ(x)·q(x) dx with its shape functions Nᵢ (φ = 0 gives the Hermite ones):", phi),
+			fmt.Sprintf("F₁ = h·((21 + 20φ)q₁ + (9 + 10φ)q₂)/(60(1 + φ)) = %s %s × ((21 + 20 × %s) × %s + (9 + 10 × %s) × %s) %s / (60 × (1 + %s)) = %s",
+				hs, lengthU, phi, q1, phi, q2, loadU, phi, f(units.Force, e.Beam[0])),
+			fmt.Sprintf("M₁ = h²·((6 + 5φ)q₁ + (4 + 5φ)q₂)/(120(1 + φ)) = (%s %s)² × ((6 + 5 × %s) × %s + (4 + 5 × %s) × %s) %s / (120 × (1 + %s)) = %s",
+				hs, lengthU, phi, q1, phi, q2, loadU, phi, f(units.Moment, e.Beam[1])),
+			fmt.Sprintf("F₂ = h·((9 + 10φ)q₁ + (21 + 20φ)q₂)/(60(1 + φ)) = %s %s × ((9 + 10 × %s) × %s + (21 + 20 × %s) × %s) %s / (60 × (1 + %s)) = %s",
+				hs, lengthU, phi, q1, phi, q2, loadU, phi, f(units.Force, e.Beam[2])),
+			fmt.Sprintf("M₂ = −h²·((4 + 5φ)q₁ + (6 + 5φ)q₂)/(120(1 + φ)) = −(%s %s)² × ((4 + 5 × %s) × %s + (6 + 5 × %s) × %s) %s / (120 × (1 + %s)) = %s",
+				hs, lengthU, phi, q1, phi, q2, loadU, phi, f(units.Moment, e.Beam[3])))
+	}
+	lines = append(lines, fmt.Sprintf("Lumped instead: h·(q₁ + q₂)/4 = %s on each node and no moments. The moments M₁ and M₂ are what lumping loses; under a load that varies along the element the forces differ too.",
+		f(units.Force, e.Lumped[1])))
 	if e.Axial != [2]float64{} {
 		p1, p2 := num(units.LineLoad, e.Axial[0]), num(units.LineLoad, e.Axial[1])
 		lines = append(lines, fmt.Sprintf("Along the axis p₁ = %s, p₂ = %s; %s, fᵢ = ∫₀ʰ Nᵢ(x)·p(x) dx:",

@@ -83,3 +83,42 @@ func TestNodalLoadsPanel(t *testing.T) {
 		t.Error("the element stays selected with the nodal loads switched off")
 	}
 }
+
+// An element of a segment with shear deformation writes out the vector of
+// the interdependent interpolation element it was solved with, with its φ,
+// not the Hermite formulas beside numbers they do not give: under q₁ = −2 kN/m,
+// q₂ = −5 kN/m over h = 1.5 m with φ = 16/15, F₁ = μh((21 + 20φ)q₁ +
+// (9 + 10φ)q₂)/60 = −2.214 kN where h(7q₁ + 3q₂)/20 is −2.175 kN (the
+// integral of the element's shape functions against the load, derived in
+// fem's TestNodalLoadsShearDeformation).
+func TestElementLoadLinesShearDeformation(t *testing.T) {
+	const h, q1, q2, phi = 1.5, -2000.0, -5000.0, 16.0 / 15
+	mu := 1 / (1 + phi)
+	beam := [4]float64{
+		mu * h * ((21+20*phi)*q1 + (9+10*phi)*q2) / 60,
+		mu * h * h * ((6+5*phi)*q1 + (4+5*phi)*q2) / 120,
+		mu * h * ((9+10*phi)*q1 + (21+20*phi)*q2) / 60,
+		-mu * h * h * ((4+5*phi)*q1 + (6+5*phi)*q2) / 120,
+	}
+	nl := &fem.NodalLoads{Bar: "linear bar", Beam: "Hermite beam", BarOrder: fem.LinearBar,
+		Elements: []fem.ElementLoad{{Start: 1, End: 1 + h, Transverse: [2]float64{q1, q2}, Beam: beam, Shear: phi,
+			Lumped: [2]float64{0, h * (q1 + q2) / 4}}}}
+	u := units.SI
+	text := strings.Join(elementLoadLines(nl, 0, u), "\n")
+	for _, want := range []string{
+		"φ = 12·EI/(G·As·h²) = " + units.FormatNumber(phi),
+		"F₁ = h·((21 + 20φ)q₁ + (9 + 10φ)q₂)/(60(1 + φ)) = ", "= " + u.Format(units.Force, beam[0]),
+		"M₁ = h²·((6 + 5φ)q₁ + (4 + 5φ)q₂)/(120(1 + φ)) = ", "= " + u.Format(units.Moment, beam[1]),
+		"F₂ = h·((9 + 10φ)q₁ + (21 + 20φ)q₂)/(60(1 + φ)) = ", "= " + u.Format(units.Force, beam[2]),
+		"M₂ = −h²·((4 + 5φ)q₁ + (6 + 5φ)q₂)/(120(1 + φ)) = ", "= " + u.Format(units.Moment, beam[3]),
+	} {
+		if !strings.Contains(text, want) {
+			t.Errorf("the element's lines do not say %q; they say\n%s", want, text)
+		}
+	}
+	for _, wrong := range []string{"(7q₁ + 3q₂)/20", "cubic Hermite shape functions"} {
+		if strings.Contains(text, wrong) {
+			t.Errorf("an element with shear deformation is written out with %q:\n%s", wrong, text)
+		}
+	}
+}

@@ -45,9 +45,14 @@ type ElementLoad struct {
 	// (zero for a linear one).
 	Bar       [2]float64
 	BarMiddle float64
-	// Beam is the consistent vector of the Hermite beam element, ∫N·q dx,
-	// for (w₁, θ₁, w₂, θ₂): N, N·m, N, N·m.
+	// Beam is the consistent vector of the beam element, ∫N·q dx, for
+	// (w₁, θ₁, w₂, θ₂): N, N·m, N, N·m. Its shape functions are the Hermite
+	// cubics, or on a segment with shear deformation those of the
+	// interdependent interpolation element (Shear above zero).
 	Beam [4]float64
+	// Shear is the element's shear parameter φ = 12·EI/(G·As·h²): 0 for an
+	// Euler–Bernoulli element, whose vector is the Hermite one.
+	Shear float64
 	// Lumped is half of the element's axial and of its transverse load, N,
 	// put on each of its end nodes by lumping.
 	Lumped [2]float64
@@ -83,7 +88,7 @@ func NodalLoadsOn(m *Model, mesh Mesh) (*NodalLoads, error) {
 		d := &els[i]
 		fb, fw := d.barLoads(order), d.beamLoads()
 		e := ElementLoad{Start: d.start, End: d.start + d.length, Axial: d.axialLoad, Transverse: d.transverseLoad,
-			Beam: [4]float64(fw)}
+			Beam: [4]float64(fw), Shear: d.phi(d.length)}
 		last := order.nodes() - 1
 		e.Bar = [2]float64{fb[0], fb[last]}
 		if last == 2 {

@@ -165,3 +165,59 @@ func TestNodalLoadsNeedTheKeyPoints(t *testing.T) {
 		t.Error("a mesh without a node at the load's end at 1.5 m was accepted")
 	}
 }
+
+// A segment with shear deformation is solved with the interdependent
+// interpolation element, whose consistent loads under a load going linearly
+// from q₁ to q₂ are not the Hermite ones: integrating its shape functions
+// (beamShape; Reddy, An Introduction to the Finite Element Method, from
+// memory) against q gives, with μ = 1/(1 + φ) and φ = 12·EI/(G·As·h²),
+// F₁ = μh((21 + 20φ)q₁ + (9 + 10φ)q₂)/60, M₁ = μh²((6 + 5φ)q₁ + (4 + 5φ)q₂)/120,
+// F₂ = μh((9 + 10φ)q₁ + (21 + 20φ)q₂)/60, M₂ = −μh²((4 + 5φ)q₁ + (6 + 5φ)q₂)/120
+// (derived by hand for this test; φ = 0 gives the Hermite element's
+// h(7q₁ + 3q₂)/20 and h²(3q₁ + 2q₂)/60). Each element reports its φ so that
+// the window can write out the vector it used.
+func TestNodalLoadsShearDeformation(t *testing.T) {
+	const l, gas = 6.0, 8e10 * 1e-4 // m; G·As, N
+	m := beamOn(l, 3, 0, fem.DistributedLoad{Direction: fem.Transverse,
+		Points: []fem.LoadPoint{{X: 1, Intensity: -2000}, {X: 2.5, Intensity: -5000}, {X: 5, Intensity: 1000}}})
+	m.Segments[0].Material.Density = 0
+	m.Segments[0].ShearDeformation = true
+	m.Segments[0].Section.ShearArea = 1e-4
+	m.Segments[0].Material.ShearModulus = 8e10
+	ei := 200e9 * 8e-6
+	nl := nodalLoads(t, m)
+	varying := 0
+	for i, e := range nl.Elements {
+		h := e.End - e.Start
+		phi := 12 * ei / (gas * h * h)
+		if !near(e.Shear, phi, phi) {
+			t.Errorf("element %d: φ = %g, want 12·EI/(G·As·h²) = %g", i, e.Shear, phi)
+		}
+		q1, q2 := e.Transverse[0], e.Transverse[1]
+		mu := 1 / (1 + phi)
+		want := [4]float64{
+			mu * h * ((21+20*phi)*q1 + (9+10*phi)*q2) / 60,
+			mu * h * h * ((6+5*phi)*q1 + (4+5*phi)*q2) / 120,
+			mu * h * ((9+10*phi)*q1 + (21+20*phi)*q2) / 60,
+			-mu * h * h * ((4+5*phi)*q1 + (6+5*phi)*q2) / 120,
+		}
+		for k := range want {
+			if !near(e.Beam[k], want[k], 5000*l*l) {
+				t.Errorf("element %d (%g m to %g m): vector %v, want %v", i, e.Start, e.End, e.Beam, want)
+				break
+			}
+		}
+		if q1 != q2 {
+			varying++
+		}
+	}
+	if varying == 0 {
+		t.Fatal("no element under a varying load: the test checks nothing that tells φ apart")
+	}
+	m.Segments[0].ShearDeformation = false
+	for i, e := range nodalLoads(t, m).Elements {
+		if e.Shear != 0 {
+			t.Errorf("Euler–Bernoulli element %d reports φ = %g", i, e.Shear)
+		}
+	}
+}

@@ -417,3 +417,51 @@ func TestPaths(t *testing.T) {
 		})
 	}
 }
+
+// Every line says how far to trust its member's finite element answer: the
+// accuracy its mesh reaches (the worst field's |FE − exact| of the extremes
+// over the field's largest magnitude), as `stave solve` states it, in the
+// text, CSV and JSON. The simply supported beam under a uniform load q on
+// its 8 elements has the FE shear force constant in each element, the exact
+// shear at the element's middle (its nodal moments are exact, the Hermite
+// element reproducing them under consistent loads, and M is linear between
+// them; Strang & Fix, ch. 1, from memory): q·h/2 = qL/16 short of qL/2 at
+// the support, 1/8 of the largest shear.
+func TestLinesSayTheirAccuracy(t *testing.T) {
+	const file = "../../../testdata/simply_supported_uniform.json"
+	names := models(t)
+	lines, _ := runAll(t, names, Options{})
+	for i, name := range names {
+		p, err := storage.Load(name)
+		if err != nil {
+			t.Fatal(err)
+		}
+		src, err := report.Analyse(context.Background(), p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		sum := src.Analysis.Summary()
+		worst, ok := sum.Worst()
+		m := lines[i]
+		if !ok {
+			if m.Accuracy != nil {
+				t.Errorf("%s: accuracy %+v without an exact solution", name, *m.Accuracy)
+			}
+			continue
+		}
+		if m.Accuracy == nil || m.Accuracy.Ratio != worst.Accuracy || m.Accuracy.Quantity != worst.Quantity {
+			t.Errorf("%s: accuracy %+v, `stave solve` states %g (%s)", name, m.Accuracy, worst.Accuracy, worst.Quantity)
+		}
+	}
+	for _, format := range []string{"text", "csv", "json"} {
+		got, lines, _ := write(t, format, []string{file})
+		a := lines[0].Accuracy
+		if a == nil || math.Abs(a.Ratio-0.125) > 1e-12 || a.Quantity != fem.QShearForce {
+			t.Fatalf("%s: accuracy %+v, want 0.125 (shear force)", file, a)
+		}
+		want := map[string]string{"text": "12.5 % (shear force)", "csv": "0.125", "json": `"fe_accuracy": {`}[format]
+		if !strings.Contains(got, want) {
+			t.Errorf("the %s output does not say %q:\n%s", format, want, got)
+		}
+	}
+}

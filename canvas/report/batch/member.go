@@ -2,11 +2,13 @@ package batch
 
 import (
 	"encoding/json"
+	"fmt"
 	"math"
 	"sort"
 	"strings"
 
 	"stave/canvas/report"
+	"stave/fem"
 	"stave/fem/analysis"
 	"stave/fem/check"
 	"stave/storage"
@@ -26,6 +28,10 @@ type Member struct {
 	// Deflection is the deflection check of largest utilisation; nil when
 	// deflection was not checked.
 	Deflection *Deflection `json:"deflection"`
+	// Accuracy is how far the member's finite element answer is from the
+	// exact one, as `stave solve` states it; nil when it was refused or
+	// has no exact solution.
+	Accuracy *Accuracy `json:"fe_accuracy"`
 	// Warnings are the findings that failed or ask for caution, failures first.
 	Warnings []Warning `json:"warnings"`
 }
@@ -48,6 +54,19 @@ type Deflection struct {
 	Ratio Ratio `json:"span_ratio"`
 	// LimitRatio is n in the limit span/n (the cantilever's for an overhang).
 	LimitRatio float64 `json:"limit_ratio"`
+}
+
+// Accuracy is the accuracy the member's mesh reaches: the largest
+// |FE − exact| of a field's extremes as a share of that field's largest
+// magnitude (fem.Extreme.Accuracy), and the field it is worst in.
+type Accuracy struct {
+	Ratio    float64      `json:"ratio"`
+	Quantity fem.Quantity `json:"quantity"` // written as its key: "shear_force"
+}
+
+// text is the accuracy in words: "0.25 % (shear force)".
+func (a *Accuracy) text() string {
+	return fmt.Sprintf("%.3g %% (%s)", 100*a.Ratio, a.Quantity)
 }
 
 // Ratio is n in span/n: +Inf when the span does not deflect, null in JSON.
@@ -80,6 +99,10 @@ func Line(file string, p *storage.Project, a *analysis.Analysis) Member {
 	if a.Err != nil {
 		m.Status, m.Problem = Refused, oneLine(a.Problem())
 		return m
+	}
+	sum := a.Summary()
+	if worst, ok := sum.Worst(); ok {
+		m.Accuracy = &Accuracy{worst.Accuracy, worst.Quantity}
 	}
 	fs := report.NewSource(p, a).WithTrains().Findings
 	m.Status = StatusOf(fs)
