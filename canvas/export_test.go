@@ -154,7 +154,7 @@ func TestWriteImage(t *testing.T) {
 	in := solved(t, demoModel(10))
 	var buf bytes.Buffer
 	in.Overlays = storage.Overlays{BendingMoment: true}
-	if err := WriteImage(&buf, "png", in, 640, 480, 1); err != nil {
+	if err := WriteImage(&buf, "png", in, 640, 480, 1, ""); err != nil {
 		t.Fatal(err)
 	}
 	img, err := png.Decode(&buf)
@@ -164,11 +164,11 @@ func TestWriteImage(t *testing.T) {
 	if b := img.Bounds(); b.Dx() != 640 || b.Dy() != 480 {
 		t.Errorf("image is %d × %d, want 640 × 480", b.Dx(), b.Dy())
 	}
-	if err := WriteImage(&buf, "bmp", in, 640, 480, 1); err == nil {
+	if err := WriteImage(&buf, "bmp", in, 640, 480, 1, ""); err == nil {
 		t.Error("an unknown image format was accepted")
 	}
 	buf.Reset()
-	if err := WriteImage(&buf, "svg", in, 640, 480, 1); err != nil {
+	if err := WriteImage(&buf, "svg", in, 640, 480, 1, ""); err != nil {
 		t.Fatal(err)
 	}
 	if !strings.Contains(buf.String(), "qualified engineer must review") {

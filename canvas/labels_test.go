@@ -178,7 +178,7 @@ func TestScreenAndExportLabelTheSameResults(t *testing.T) {
 			}
 		}
 		var svg bytes.Buffer
-		if err := WriteImage(&svg, "svg", c.in, 1200, 800, 1); err != nil {
+		if err := WriteImage(&svg, "svg", c.in, 1200, 800, 1, ""); err != nil {
 			t.Fatalf("%s: %v", c.name, err)
 		}
 		got, want := resultTexts(screen), resultTexts(svgTexts(t, svg.Bytes()))

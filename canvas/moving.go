@@ -307,7 +307,7 @@ func WriteMoving(w io.Writer, format string, in MovingInput, width, height float
 		return fmt.Errorf("canvas: there is no model to draw")
 	}
 	if height <= footerHeight {
-		return footerError(height)
+		return footerError(height, footerHeight)
 	}
 	in.Hovering = false
 	s, _ := BuildMoving(in, width, height-footerHeight)

@@ -318,6 +318,16 @@ func drawnCase(a *analysis.Analysis) int {
 	return 0
 }
 
+// meshNote says how far to trust the finite element answer of a: who
+// chose the mesh and the accuracy its extremes reach against the exact
+// ones; "" without results.
+func meshNote(a *analysis.Analysis) string {
+	if a == nil || a.Solution == nil {
+		return ""
+	}
+	return analysis.MeshChoice(a.Summary())
+}
+
 // warningSentences are the warnings among fs for a one-page sheet, each
 // with its code: failures and cautions in full, notes by their name alone.
 func warningSentences(fs []analysis.Finding) []string {
@@ -363,7 +373,7 @@ func Write(w io.Writer, src Source, product string, opts Options) error {
 	switch product {
 	case "png", "svg", "pdf":
 		// Without the selection, the mouse position or a highlighted check.
-		return canvas.WriteImage(w, product, in, opts.Width, opts.Height, opts.DPI/72)
+		return canvas.WriteImage(w, product, in, opts.Width, opts.Height, opts.DPI/72, meshNote(src.Analysis))
 	case "sheet-pdf", "sheet-png":
 		n := src.Project.Notes
 		sheet := canvas.SheetInput{
@@ -373,9 +383,7 @@ func Write(w io.Writer, src Source, product string, opts Options) error {
 			Cases:  sheetCaseLines(src),
 			Trains: trainLines(src),
 		}
-		if a := src.Analysis; a != nil && a.Solution != nil {
-			sheet.Mesh = analysis.MeshChoice(a.Summary())
-		}
+		sheet.Mesh = meshNote(src.Analysis)
 		return canvas.WriteSheet(w, strings.TrimPrefix(product, "sheet-"), sheet)
 	case "multiples-png", "multiples-pdf":
 		return writeMultiples(context.Background(), w, src, strings.TrimPrefix(product, "multiples-"), opts)

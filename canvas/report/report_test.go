@@ -3,12 +3,14 @@ package report
 import (
 	"bytes"
 	"context"
+	"html"
 	"image/png"
 	"io"
 	"strings"
 	"testing"
 
 	"stave/fem"
+	"stave/fem/analysis"
 	"stave/storage"
 )
 
@@ -122,4 +124,39 @@ func TestExportEnvelopeOverflow(t *testing.T) {
 	if !strings.Contains(svg.String(), "too large") {
 		t.Error("the drawing of an overflowing envelope does not say the results are too large")
 	}
+}
+
+// An exported drawing says, above the caution, how far to trust its finite
+// element answer, as the sheet and stave solve do: a coarse mesh set in
+// the model (the simply supported beam on 2 elements, whose shear force is
+// off by a quarter of qL/2: the FE shear is the exact one at each
+// element's middle, Strang & Fix, from memory) showed its diagrams with no
+// word of it.
+func TestExportedDrawingSaysHowFarToTrustIt(t *testing.T) {
+	p, err := storage.Load("../../testdata/simply_supported_uniform.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	p.Model.Mesh = fem.MeshSettings{Elements: 2}
+	var svg bytes.Buffer
+	src, err := Export(context.Background(), &svg, p, "svg", Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := strings.Fields(analysis.MeshChoice(src.Analysis.Summary()))
+	text := strings.Join(strings.Fields(svgText(svg.String())), " ")
+	if !strings.Contains(text, strings.Join(want, " ")) || !strings.Contains(text, "beyond the default mesh") {
+		t.Errorf("the drawing's texts %q lack the mesh's accuracy %q", text, strings.Join(want, " "))
+	}
+}
+
+// svgText is the text of an SVG's text elements, in order, space apart.
+func svgText(svg string) string {
+	var out []string
+	for _, part := range strings.Split(svg, "<text")[1:] {
+		if i, j := strings.Index(part, ">"), strings.Index(part, "</text>"); i >= 0 && j > i {
+			out = append(out, html.UnescapeString(part[i+1:j]))
+		}
+	}
+	return strings.Join(out, " ")
 }
