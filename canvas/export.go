@@ -9,9 +9,9 @@ import (
 const footerHeight = 18
 
 // footerError refuses a drawing height that leaves no room above its
-// footer, footer points high.
-func footerError(height, footer float32) error {
-	return &SizeError{fmt.Sprintf("canvas: a drawing %g points high leaves no room above its %g-point footer: give a height above %g points", height, footer, footer)}
+// footer, footer points high, which holds what.
+func footerError(height, footer float32, what string) error {
+	return &SizeError{fmt.Sprintf("canvas: a drawing %g points high leaves no room above its %g-point footer (%s): give a height above %g points", height, footer, what, footer)}
 }
 
 // WriteImage draws in with its overlays, fitted to width × height
@@ -25,11 +25,20 @@ func WriteImage(w io.Writer, format string, in Input, width, height float32, sca
 	}
 	lines := []string{Caution}
 	if note != "" {
-		lines = append(wrap(note, smallSize, false, width-16), lines...)
+		// Wrapped to the drawing, but no narrower than the caution's one
+		// line: a drawing too narrow for that has no room for either.
+		lines = append(wrap(note, smallSize, false, max(width-16, textWidth(Caution, smallSize, false))), lines...)
 	}
 	footer := float32(len(lines)) * footerHeight
+	if err := checkSize(&Scene{Width: width, Height: height}, rasterScale(format, scale)); err != nil {
+		return err // a size no PNG can have, whatever the footer
+	}
 	if height <= footer {
-		return footerError(height, footer)
+		what := "the caution"
+		if note != "" {
+			what = "the mesh's accuracy and the caution"
+		}
+		return footerError(height, footer, what)
 	}
 	in.Selected, in.Hovering, in.Highlight = Ref{}, false, [2]float64{}
 	v := NewView(width, height-footer)

@@ -307,7 +307,7 @@ func WriteMoving(w io.Writer, format string, in MovingInput, width, height float
 		return fmt.Errorf("canvas: there is no model to draw")
 	}
 	if height <= footerHeight {
-		return footerError(height, footerHeight)
+		return footerError(height, footerHeight, "the caution")
 	}
 	in.Hovering = false
 	s, _ := BuildMoving(in, width, height-footerHeight)

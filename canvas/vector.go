@@ -222,9 +222,7 @@ func WritePDF(w io.Writer, s *Scene) error { return writeScene(w, s, "pdf", 1) }
 // writeScene writes s as "png" (scale pixels per scene pixel), "svg" or
 // "pdf" (one point per scene pixel).
 func writeScene(w io.Writer, s *Scene, format string, scale float64) error {
-	if format != "png" {
-		scale = 1
-	}
+	scale = rasterScale(format, scale)
 	if err := checkSize(s, scale); err != nil {
 		return err
 	}
@@ -260,6 +258,15 @@ const MaxPixels = 20000
 type SizeError struct{ msg string }
 
 func (e *SizeError) Error() string { return e.msg }
+
+// rasterScale is the pixels per point a drawing of format is written at:
+// scale for a PNG, 1 for the vector formats.
+func rasterScale(format string, scale float64) float64 {
+	if format != "png" {
+		return 1
+	}
+	return scale
+}
 
 func checkSize(s *Scene, scale float64) error {
 	if s == nil {

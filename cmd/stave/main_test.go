@@ -305,7 +305,7 @@ func TestExportRefusesDensitiesTooLargeForTheDrawing(t *testing.T) {
 			[]string{"1200 × 800 points at 20000 dpi come to 333333 × 222222 pixels", "give 0.09 to 1200 dpi"}},
 		{[]string{"--out", "x.png", "--dpi", "1", "--width", "30", "--height", "40"},
 			[]string{"30 × 40 points at 1 dpi come to 0.42 × 0.56 pixels", "give 2.4 to 36000 dpi"}},
-		{[]string{"--out", "x.svg", "--height", "10"}, []string{"a drawing 10 points high leaves no room above its 18-point footer"}},
+		{[]string{"--out", "x.svg", "--height", "10"}, []string{"a drawing 10 points high leaves no room above its 36-point footer (the mesh's accuracy and the caution)"}},
 		{[]string{"--out", "x.png", "--multiples", "--dpi", "5000"}, []string{"at 5000 dpi come to", "pixels"}},
 	} {
 		out := filepath.Join(dir, c.args[1])
