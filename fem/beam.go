@@ -6,10 +6,26 @@ import "math"
 // deflection and θ = w′ the rotation.
 
 // hermiteBeam is the Euler–Bernoulli beam element with cubic Hermite shape
-// functions.
-type hermiteBeam struct{}
+// functions and, in a segment that deforms in shear, the interdependent
+// interpolation element of a Timoshenko beam, which stands in for it;
+// shear says in how many of the model's segments.
+type hermiteBeam struct{ shear shearExtent }
 
-func (hermiteBeam) Name() string       { return "Hermite beam" }
+// shearExtent is how many of a model's segments deform in shear.
+type shearExtent uint8
+
+const (
+	noShear shearExtent = iota
+	someShear
+	allShear
+)
+
+// Name is the element in the trade's words, after the theory of the
+// segments it is in: "Hermite beam", "Timoshenko beam", or both.
+func (b hermiteBeam) Name() string {
+	return [...]string{"Hermite beam", "Hermite and Timoshenko beam", "Timoshenko beam"}[b.shear]
+}
+
 func (hermiteBeam) Problem() string    { return "beam" }
 func (hermiteBeam) Motions() []Dof     { return []Dof{Transverse, Rotation} }
 func (hermiteBeam) Hierarchical() bool { return true }

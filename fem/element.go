@@ -63,7 +63,20 @@ func (m *Model) Formulations() (bar, beam Formulation) {
 	if order == 0 {
 		order = LinearBar
 	}
-	return barFormulation{order}, hermiteBeam{}
+	shear := 0
+	for _, s := range m.Segments {
+		if s.ShearFlexibility() > 0 {
+			shear++
+		}
+	}
+	extent := someShear
+	switch shear {
+	case 0:
+		extent = noShear
+	case len(m.Segments):
+		extent = allShear
+	}
+	return barFormulation{order}, hermiteBeam{extent}
 }
 
 // elementData is what an element needs from the model: geometry, section,

@@ -134,3 +134,29 @@ func (d *elementData) strainEnergy(order ElementOrder, bar []float64, beam []flo
 	}
 	return 0.5 * e
 }
+
+// The beam element is named after the theory of the segments it stands in:
+// with shear deformation it is the interdependent interpolation element of
+// a Timoshenko beam (its consistent loads carry φ, nodalloads.go), and the
+// legends, the mesh panel and the table of nodal loads called it a Hermite
+// beam.
+func TestBeamElementNamedAfterItsTheory(t *testing.T) {
+	steel := Material{Elastic: 200e9, Poisson: 0.3}
+	sec := Section{Area: 4e-3, SecondMoment: 8e-6, FibreDistance: 0.1, ShearCoefficient: 5.0 / 6}
+	seg := func(start, end float64, shear bool) Segment {
+		return Segment{Start: start, End: end, Section: sec, Material: steel, ShearDeformation: shear}
+	}
+	for _, c := range []struct {
+		segments []Segment
+		want     string
+	}{
+		{[]Segment{seg(0, 2, false), seg(2, 4, false)}, "Hermite beam"},
+		{[]Segment{seg(0, 2, true), seg(2, 4, false)}, "Hermite and Timoshenko beam"},
+		{[]Segment{seg(0, 2, true), seg(2, 4, true)}, "Timoshenko beam"},
+	} {
+		m := Model{Segments: c.segments}
+		if _, beam := m.Formulations(); beam.Name() != c.want {
+			t.Errorf("shear deformation %v, %v: the beam element is %q, want %q", c.segments[0].ShearDeformation, c.segments[1].ShearDeformation, beam.Name(), c.want)
+		}
+	}
+}
