@@ -63,9 +63,6 @@ type builder struct {
 	crowdLast bool
 	// full are the cells around which a label found no place (see fullCell).
 	full map[[2]int32]fullCell
-	// intervals are the exact solution's stretches, once worked out (see
-	// exactIntervals).
-	intervals []fem.Interval
 	// widths are the texts measured so far (see textWidth).
 	widths map[textKey]float32
 	curves [][]Point
@@ -136,16 +133,6 @@ func build(in Input, v View) *builder {
 		b.hoverLine(b.sx(in.HoverX), lay.top, v.Height)
 	}
 	return b
-}
-
-// exactIntervals are the stretches of the exact solution in the input,
-// worked out on the first call: the deflection and the strips both look
-// for their extremes in them.
-func (b *builder) exactIntervals() []fem.Interval {
-	if b.intervals == nil {
-		b.intervals = b.in.Exact.Intervals()
-	}
-	return b.intervals
 }
 
 // hoverLine draws the dashed line under the mouse from y0 to y1, broken

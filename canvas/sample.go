@@ -326,21 +326,22 @@ func eachPixel(m *fem.Model, v View, add func(x float64, side fem.Side)) {
 
 // exactExtremes are the smallest and largest exact values of each of qs in
 // closed form, over the stretches between key points that reach into the
-// view: a stretch's every field is one polynomial (fem.Exact.Intervals).
-// Where the exact solution reaches an extreme also at the place of the
-// finite element extreme of the same kind in near, to round-off (the two
-// ends of a symmetric span, say), that place is taken, so that a label
-// pairs the two where they belong together. ivs are e's stretches
-// (fem.Exact.Intervals), worked out once for every call of a build.
-func exactExtremes(e *fem.Exact, ivs []fem.Interval, v View, qs []fem.Quantity, near []*curve) (lo, hi []extreme) {
+// view: a stretch's every field is one polynomial (fem.Exact.EachInterval),
+// read once for all of qs. Where the exact solution reaches an extreme also
+// at the place of the finite element extreme of the same kind in near, to
+// round-off (the two ends of a symmetric span, say), that place is taken, so
+// that a label pairs the two where they belong together.
+func exactExtremes(e *fem.Exact, v View, qs []fem.Quantity, near []*curve) (lo, hi []extreme) {
 	lo, hi = make([]extreme, len(qs)), make([]extreme, len(qs))
-	x0, x1 := v.ToModelX(0), v.ToModelX(v.Width)
-	for i, q := range qs {
+	for i := range qs {
 		lo[i], hi[i] = extreme{value: math.Inf(1)}, extreme{value: math.Inf(-1)}
-		for _, iv := range ivs {
-			if iv.X(1) < x0 || iv.X(0) > x1 {
-				continue
-			}
+	}
+	x0, x1 := v.ToModelX(0), v.ToModelX(v.Width)
+	for _, iv := range e.EachInterval() {
+		if iv.X(1) < x0 || iv.X(0) > x1 {
+			continue
+		}
+		for i, q := range qs {
 			l, h := iv.Range(q)
 			if fem.Beyond(lo[i].value, l.Value) {
 				lo[i] = extreme{l.X, l.Value}
@@ -349,6 +350,8 @@ func exactExtremes(e *fem.Exact, ivs []fem.Interval, v View, qs []fem.Quantity, 
 				hi[i] = extreme{h.X, h.Value}
 			}
 		}
+	}
+	for i, q := range qs {
 		size := max(math.Abs(lo[i].value), math.Abs(hi[i].value))
 		for _, p := range [2]struct {
 			ex *extreme
