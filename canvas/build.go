@@ -83,13 +83,20 @@ type builder struct {
 	gaps       []gap
 }
 
-// Build lays out the drawing of in for the view v.
-func Build(in Input, v View) *Scene { return build(in, v).scene() }
+// Build lays out the drawing of in for the view v. The memory the layout
+// needs only while it works goes back to in.Cache for the next build.
+func Build(in Input, v View) *Scene {
+	b := build(in, v)
+	s := b.scene()
+	in.Cache.keep(b)
+	return s
+}
 
 // build lays out the drawing in a builder, which keeps what was placed
 // where (its boxes) beside the scene.
 func build(in Input, v View) *builder {
 	b := &builder{in: in, v: v, u: in.Units, s: &Scene{Width: v.Width, Height: v.Height}}
+	in.Cache.lend(b)
 	if b.u.Name == "" {
 		b.u = units.SI
 	}
@@ -167,8 +174,9 @@ func (b *builder) exact() *fem.Exact {
 // scene returns the items built with the labels on top of every other
 // item, each over its backing.
 func (b *builder) scene() *Scene {
-	b.s.Items = slices.Concat(b.s.Items, b.leaders, b.backings, b.texts)
-	b.texts, b.backings, b.leaders = nil, nil, nil
+	b.s.Items = slices.Grow(b.s.Items, len(b.leaders)+len(b.backings)+len(b.texts))
+	b.s.Items = append(append(append(b.s.Items, b.leaders...), b.backings...), b.texts...)
+	b.texts, b.backings, b.leaders = b.texts[:0], b.backings[:0], b.leaders[:0]
 	return b.s
 }
 

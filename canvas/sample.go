@@ -382,6 +382,55 @@ type Cache struct {
 	sampled   []*curve
 	half      []*curve // memory for the second half of a two-goroutine read
 	exactMem  []*curve // memory for the exact curves, read anew each build
+	scratch   scratch  // lent to each build (see lend)
+}
+
+// scratch is what a build needs only while it lays the drawing out: the
+// occupied boxes and their grid, the labels' items before they join the
+// scene's, and the widths of the texts measured (a text's width follows
+// from its characters, size and weight alone, so it holds for every later
+// build). A drag step rebuilds the drawing of 1,000 loads with all of it.
+// items is the size of the last scene, which the next starts with room for.
+type scratch struct {
+	boxes                    []box
+	grid                     boxGrid
+	texts, backings, leaders []Item
+	widths                   map[textKey]float32
+	items                    int
+}
+
+// maxWidths bounds the texts a Cache remembers the widths of: past it they
+// are forgotten and measured anew.
+const maxWidths = 1 << 12
+
+// lend gives b the scratch memory of the last build, emptied; nothing when
+// c is nil.
+func (c *Cache) lend(b *builder) {
+	if c == nil {
+		return
+	}
+	m := c.scratch
+	c.scratch = scratch{}
+	b.boxes = m.boxes[:0]
+	if g := newBoxGrid(b.s.Width, b.s.Height); m.grid.columns == g.columns && m.grid.rows == g.rows {
+		clear(m.grid.newest)
+		b.boxGrid = boxGrid{columns: g.columns, rows: g.rows, newest: m.grid.newest, entries: m.grid.entries[:0], large: m.grid.large[:0]}
+	}
+	b.texts, b.backings, b.leaders = m.texts[:0], m.backings[:0], m.leaders[:0]
+	if len(m.widths) <= maxWidths {
+		b.widths = m.widths
+	}
+	b.s.Items = make([]Item, 0, m.items)
+}
+
+// keep takes back the scratch memory of b, whose scene is made; nothing
+// when c is nil.
+func (c *Cache) keep(b *builder) {
+	if c == nil {
+		return
+	}
+	c.scratch = scratch{boxes: b.boxes, grid: b.boxGrid, texts: b.texts, backings: b.backings, leaders: b.leaders,
+		widths: b.widths, items: len(b.s.Items)}
 }
 
 // grow returns the first n of *cs, adding empty curves as needed.
