@@ -278,10 +278,12 @@ const (
 // newBoxGrid covers a scene of width × height pixels, or of 8192 px along
 // a longer side: past it, boxes share the cells at the edge.
 func newBoxGrid(width, height float32) boxGrid {
-	cells := func(px float32) int32 { return int32(max(0, min(8192, px))/gridCell) + 1 }
-	c, r := cells(width), cells(height)
+	c, r := gridCells(width), gridCells(height)
 	return boxGrid{columns: c, rows: r, newest: make([]int32, c*r)}
 }
+
+// gridCells is the number of cells of a grid along a side of px pixels.
+func gridCells(px float32) int32 { return int32(max(0, min(8192, px))/gridCell) + 1 }
 
 // cellSpan returns the cells from lo to hi along an axis of n cells;
 // false when they are too many or lo and hi are not numbers in order.

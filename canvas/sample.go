@@ -412,9 +412,9 @@ func (c *Cache) lend(b *builder) {
 	m := c.scratch
 	c.scratch = scratch{}
 	b.boxes = m.boxes[:0]
-	if g := newBoxGrid(b.s.Width, b.s.Height); m.grid.columns == g.columns && m.grid.rows == g.rows {
-		clear(m.grid.newest)
-		b.boxGrid = boxGrid{columns: g.columns, rows: g.rows, newest: m.grid.newest, entries: m.grid.entries[:0], large: m.grid.large[:0]}
+	if g := m.grid; g.newest != nil && g.columns == gridCells(b.s.Width) && g.rows == gridCells(b.s.Height) {
+		clear(g.newest)
+		b.boxGrid = boxGrid{columns: g.columns, rows: g.rows, newest: g.newest, entries: g.entries[:0], large: g.large[:0]}
 	}
 	b.texts, b.backings, b.leaders = m.texts[:0], m.backings[:0], m.leaders[:0]
 	if len(m.widths) <= maxWidths {
