@@ -63,6 +63,11 @@ type label struct {
 	// then looks on the near rings only, and not even there around a
 	// place where one of them found no room (see fullCell).
 	crowd bool
+	// taken marks the spots of a crowd label that waits (see placeCrowd)
+	// that were not free when it first looked, in the band takenIn: boxes
+	// are only ever added, so they are not free when it looks again.
+	taken   uint64
+	takenIn rect
 }
 
 // labelSpot puts a label's box with the point (ax, ay) of it, in fractions
@@ -142,7 +147,11 @@ func (b *builder) place(l label) (rect, bool) {
 	// a short leader; a spot of its own across a curve; any ring. An
 	// optional label takes its own spots or nothing.
 	own := make([]try, 0, 8)
-	for _, s := range l.spots {
+	for k, s := range l.spots {
+		if k < 64 && l.taken&(1<<k) != 0 && l.takenIn == within {
+			own = append(own, try{})
+			continue
+		}
 		t := look(s, false)
 		if t.free && !b.crossesCurve(t.r) {
 			return take(t)
@@ -150,6 +159,12 @@ func (b *builder) place(l label) (rect, bool) {
 		own = append(own, t)
 	}
 	if l.crowd && !b.crowdLast {
+		for k, t := range own[:min(len(own), 64)] {
+			if !t.free {
+				l.taken |= 1 << k
+			}
+		}
+		l.takenIn = within
 		b.crowd = append(b.crowd, l)
 		return rect{}, false
 	}
