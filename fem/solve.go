@@ -290,12 +290,17 @@ const smallestNormal = 0x1p-1022
 // solver. (Displacements lost to zero are refused where they are solved
 // for, assembly.solve.)
 func checkUnderflow(s *Solution) error {
-	largest := 0.0
+	// The largest magnitude by the bits of |v|, which order as the
+	// magnitudes do, a NaN's above all: integer comparisons, where the
+	// float max and its care for NaN and −0 were a tenth of a solve of
+	// 10,000 elements.
+	var bits uint64
 	for _, d := range s.Displacement {
 		for _, v := range d {
-			largest = max(largest, math.Abs(v))
+			bits = max(bits, math.Float64bits(v)&^(1<<63))
 		}
 	}
+	largest := math.Float64frombits(bits)
 	applied, reactions := 0.0, 0.0
 	for i := range 3 {
 		applied = max(applied, math.Abs(s.Equilibrium.Applied[i]))
