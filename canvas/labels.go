@@ -241,7 +241,7 @@ func (b *builder) placeCrowd() {
 	for _, l := range b.crowd {
 		b.place(l)
 	}
-	b.crowd, b.crowdLast = nil, false
+	b.crowd, b.crowdLast = b.crowd[:0], false
 }
 
 // free reports whether r, with a little space around it, overlaps no box.

@@ -386,7 +386,8 @@ type Cache struct {
 }
 
 // scratch is what a build needs only while it lays the drawing out: the
-// occupied boxes and their grid, the labels' items before they join the
+// occupied boxes and their grid, the crowd labels waiting and the cells
+// where they found no room, the labels' items before they join the
 // scene's, and the widths of the texts measured (a text's width follows
 // from its characters, size and weight alone, so it holds for every later
 // build). A drag step rebuilds the drawing of 1,000 loads with all of it.
@@ -394,6 +395,8 @@ type Cache struct {
 type scratch struct {
 	boxes                    []box
 	grid                     boxGrid
+	crowd                    []label
+	full                     map[[2]int32]fullCell
 	texts, backings, leaders []Item
 	widths                   map[textKey]float32
 	items                    int
@@ -416,6 +419,8 @@ func (c *Cache) lend(b *builder) {
 		clear(g.newest)
 		b.boxGrid = boxGrid{columns: g.columns, rows: g.rows, newest: g.newest, entries: g.entries[:0], large: g.large[:0]}
 	}
+	b.crowd, b.full = m.crowd[:0], m.full
+	clear(b.full)
 	b.texts, b.backings, b.leaders = m.texts[:0], m.backings[:0], m.leaders[:0]
 	if len(m.widths) <= maxWidths {
 		b.widths = m.widths
@@ -429,8 +434,8 @@ func (c *Cache) keep(b *builder) {
 	if c == nil {
 		return
 	}
-	c.scratch = scratch{boxes: b.boxes, grid: b.boxGrid, texts: b.texts, backings: b.backings, leaders: b.leaders,
-		widths: b.widths, items: len(b.s.Items)}
+	c.scratch = scratch{boxes: b.boxes, grid: b.boxGrid, crowd: b.crowd, full: b.full,
+		texts: b.texts, backings: b.backings, leaders: b.leaders, widths: b.widths, items: len(b.s.Items)}
 }
 
 // grow returns the first n of *cs, adding empty curves as needed.
