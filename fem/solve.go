@@ -75,13 +75,14 @@ func conditionWarning(problem string, cond float64) string {
 	return ""
 }
 
-// Solve validates, meshes, assembles and solves the model.
+// Solve validates, meshes, assembles and solves the model: BuildMesh and
+// SolveOnMesh on one prepared member.
 func Solve(m *Model) (*Solution, error) {
-	mesh, err := BuildMesh(m)
+	p, err := Prepare(m)
 	if err != nil {
 		return nil, err
 	}
-	return SolveOnMesh(m, mesh)
+	return p.Solve(p.Mesh())
 }
 
 // SolveOnMesh solves the model on a given mesh, which must hold a node at
