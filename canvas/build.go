@@ -63,9 +63,11 @@ type builder struct {
 	crowdLast bool
 	// full are the cells around which a label found no place (see fullCell).
 	full map[[2]int32]fullCell
-	// widths are the texts measured so far (see textWidth).
-	widths map[textKey]float32
-	curves [][]Point
+	// widths are the texts measured so far (see textWidth), formats the
+	// values written (see format).
+	widths  map[textKey]float32
+	formats map[formatKey]string
+	curves  [][]Point
 	// band bounds the labels placed while a band (the sketch, a strip) is
 	// drawn; zero for the whole scene.
 	band rect
@@ -96,10 +98,10 @@ func Build(in Input, v View) *Scene {
 // where (its boxes) beside the scene.
 func build(in Input, v View) *builder {
 	b := &builder{in: in, v: v, u: in.Units, s: &Scene{Width: v.Width, Height: v.Height}}
-	in.Cache.lend(b)
 	if b.u.Name == "" {
 		b.u = units.SI
 	}
+	in.Cache.lend(b)
 	if in.Model == nil {
 		return b
 	}
@@ -379,12 +381,31 @@ func (b *builder) arrow(tail, tip Point, c color.NRGBA, width, head float32) {
 // format writes an SI value in the chosen unit system; a unit that starts
 // with a power of ten gets its multiplication sign: "80.00 × 10⁶ mm⁴", not
 // "80.00 10⁶ mm⁴", which reads as 80.00106 or a product of two numbers.
+//
+// Each value is written once per drawing and unit system, and kept in the
+// Cache for the next drawing: a drag step writes the forces of 1,000 loads
+// again, most of them alike.
 func (b *builder) format(q units.Kind, v float64) string {
+	k := formatKey{q, math.Float64bits(v)}
+	if s, ok := b.formats[k]; ok {
+		return s
+	}
 	s, sym := b.u.Format(q, v), b.u.Unit(q).Symbol
 	if strings.HasPrefix(sym, "10") && strings.HasSuffix(s, " "+sym) {
-		return strings.TrimSuffix(s, sym) + "× " + sym
+		s = strings.TrimSuffix(s, sym) + "× " + sym
 	}
+	if b.formats == nil {
+		b.formats = map[formatKey]string{}
+	}
+	b.formats[k] = s
 	return s
+}
+
+// formatKey is a value as format writes it: its kind and its bits (−0 is
+// not 0 to it).
+type formatKey struct {
+	q    units.Kind
+	bits uint64
 }
 
 // wrap breaks s into lines no wider than w pixels. A line's width is taken

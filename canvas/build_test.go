@@ -340,24 +340,29 @@ func TestTwoDiagramsFitALaptopDrawing(t *testing.T) {
 }
 
 // A Cache lends each build the memory of the one before (boxes, grid,
-// labels, measured widths): a drawing built with a Cache that has drawn
-// others (more loads, fewer, a bigger view, the same again) is the drawing
-// built without one, item for item. A box or a label left over from an
-// earlier build would move or drop a label here. (Build's own contract; no
-// check value of its own.)
+// labels, measured widths, written values): a drawing built with a Cache
+// that has drawn others (more loads, fewer, a bigger view, other units, the
+// same again) is the drawing built without one, item for item. A box or a
+// label left over from an earlier build would move or drop a label here, a
+// value written in other units would show. (Build's own contract; no check
+// value of its own.)
 func TestCacheLendsNothingOfEarlierDrawings(t *testing.T) {
 	crowded := bench.KeyPointModel(200, 300)
 	sparse := bench.KeyPointModel(200, 3)
 	plain := demoModel(40)
+	us := units.USCustomary
 	steps := []struct {
 		m    *fem.Model
 		w, h float32
-	}{{crowded, 1000, 800}, {sparse, 1000, 800}, {plain, 1000, 800}, {crowded, 1200, 900}, {plain, 1000, 800}, {crowded, 1000, 800}, {crowded, 1000, 800}}
+		u    units.System
+	}{{crowded, 1000, 800, units.SI}, {sparse, 1000, 800, units.SI}, {plain, 1000, 800, units.SI}, {crowded, 1200, 900, units.SI},
+		{plain, 1000, 800, us}, {crowded, 1000, 800, us}, {crowded, 1000, 800, units.SI}, {crowded, 1000, 800, units.SI}}
 	cache := &Cache{}
 	for i, st := range steps {
 		v := NewView(st.w, st.h)
 		v.Fit(st.m)
 		in := solved(t, st.m)
+		in.Units = st.u
 		in.Cache = nil
 		want := Build(in, v)
 		in.Cache = cache

@@ -6,6 +6,7 @@ import (
 	"sort"
 
 	"stave/fem"
+	"stave/fem/units"
 )
 
 // extreme is a value and where it occurs.
@@ -388,9 +389,9 @@ type Cache struct {
 // scratch is what a build needs only while it lays the drawing out: the
 // occupied boxes and their grid, the crowd labels waiting and the cells
 // where they found no room, the labels' items before they join the
-// scene's, and the widths of the texts measured (a text's width follows
-// from its characters, size and weight alone, so it holds for every later
-// build). A drag step rebuilds the drawing of 1,000 loads with all of it.
+// scene's, the widths of the texts measured (a text's width follows from
+// its characters, size and weight alone, so it holds for every later build)
+// and the values written, in the unit system formatsIn. A drag step rebuilds the drawing of 1,000 loads with all of it.
 // items is the size of the last scene, which the next starts with room for.
 type scratch struct {
 	boxes                    []box
@@ -399,11 +400,14 @@ type scratch struct {
 	full                     map[[2]int32]fullCell
 	texts, backings, leaders []Item
 	widths                   map[textKey]float32
+	formats                  map[formatKey]string
+	formatsIn                units.System
 	items                    int
 }
 
-// maxWidths bounds the texts a Cache remembers the widths of: past it they
-// are forgotten and measured anew.
+// maxWidths bounds the texts a Cache remembers the widths of, and the
+// values it remembers written: past it they are forgotten and measured or
+// written anew.
 const maxWidths = 1 << 12
 
 // lend gives b the scratch memory of the last build, emptied; nothing when
@@ -425,6 +429,9 @@ func (c *Cache) lend(b *builder) {
 	if len(m.widths) <= maxWidths {
 		b.widths = m.widths
 	}
+	if len(m.formats) <= maxWidths && m.formatsIn == b.u {
+		b.formats = m.formats
+	}
 	b.s.Items = make([]Item, 0, m.items)
 }
 
@@ -435,7 +442,8 @@ func (c *Cache) keep(b *builder) {
 		return
 	}
 	c.scratch = scratch{boxes: b.boxes, grid: b.boxGrid, crowd: b.crowd, full: b.full,
-		texts: b.texts, backings: b.backings, leaders: b.leaders, widths: b.widths, items: len(b.s.Items)}
+		texts: b.texts, backings: b.backings, leaders: b.leaders, widths: b.widths,
+		formats: b.formats, formatsIn: b.u, items: len(b.s.Items)}
 }
 
 // grow returns the first n of *cs, adding empty curves as needed.
