@@ -372,8 +372,10 @@ func exactExtremes(e *fem.Exact, v View, qs []fem.Quantity, near []*curve) (lo, 
 // Cache keeps the sampled finite element curves between builds of the same
 // solution in the same view, so a hover or a selection change redraws without
 // reading a large solution again; after any other change it lends their
-// memory to the new curves. The zero value is ready to use; give each drawing
-// area its own Cache and do not share one between goroutines.
+// memory to the new curves. It also lends each build the layout's memory of
+// the one before and keeps the texts' widths and the values written (see
+// scratch). The zero value is ready to use; give each drawing area its own
+// Cache and do not share one between goroutines.
 type Cache struct {
 	solution  *fem.Solution
 	x0, scale float64
