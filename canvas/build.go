@@ -63,12 +63,11 @@ type builder struct {
 	crowdLast bool
 	// full are the cells around which a label found no place (see fullCell).
 	full map[[2]int32]fullCell
-	// intervals are the exact solution's stretches, once worked out (see
-	// exactIntervals).
-	intervals []fem.Interval
-	// widths are the texts measured so far (see textWidth).
-	widths map[textKey]float32
-	curves [][]Point
+	// widths are the texts measured so far (see textWidth), formats the
+	// values written (see format).
+	widths  map[textKey]float32
+	formats map[formatKey]string
+	curves  [][]Point
 	// band bounds the labels placed while a band (the sketch, a strip) is
 	// drawn; zero for the whole scene.
 	band rect
@@ -86,8 +85,14 @@ type builder struct {
 	gaps       []gap
 }
 
-// Build lays out the drawing of in for the view v.
-func Build(in Input, v View) *Scene { return build(in, v).scene() }
+// Build lays out the drawing of in for the view v. The memory the layout
+// needs only while it works goes back to in.Cache for the next build.
+func Build(in Input, v View) *Scene {
+	b := build(in, v)
+	s := b.scene()
+	in.Cache.keep(b)
+	return s
+}
 
 // build lays out the drawing in a builder, which keeps what was placed
 // where (its boxes) beside the scene.
@@ -96,6 +101,7 @@ func build(in Input, v View) *builder {
 	if b.u.Name == "" {
 		b.u = units.SI
 	}
+	in.Cache.lend(b)
 	if in.Model == nil {
 		return b
 	}
@@ -138,16 +144,6 @@ func build(in Input, v View) *builder {
 	return b
 }
 
-// exactIntervals are the stretches of the exact solution in the input,
-// worked out on the first call: the deflection and the strips both look
-// for their extremes in them.
-func (b *builder) exactIntervals() []fem.Interval {
-	if b.intervals == nil {
-		b.intervals = b.in.Exact.Intervals()
-	}
-	return b.intervals
-}
-
 // hoverLine draws the dashed line under the mouse from y0 to y1, broken
 // where it would cross a label: through the gaps of the glyphs a dash
 // turned the 5 of "2.500 m" into a 9.
@@ -180,8 +176,9 @@ func (b *builder) exact() *fem.Exact {
 // scene returns the items built with the labels on top of every other
 // item, each over its backing.
 func (b *builder) scene() *Scene {
-	b.s.Items = slices.Concat(b.s.Items, b.leaders, b.backings, b.texts)
-	b.texts, b.backings, b.leaders = nil, nil, nil
+	b.s.Items = slices.Grow(b.s.Items, len(b.leaders)+len(b.backings)+len(b.texts))
+	b.s.Items = append(append(append(b.s.Items, b.leaders...), b.backings...), b.texts...)
+	b.texts, b.backings, b.leaders = b.texts[:0], b.backings[:0], b.leaders[:0]
 	return b.s
 }
 
@@ -384,12 +381,31 @@ func (b *builder) arrow(tail, tip Point, c color.NRGBA, width, head float32) {
 // format writes an SI value in the chosen unit system; a unit that starts
 // with a power of ten gets its multiplication sign: "80.00 × 10⁶ mm⁴", not
 // "80.00 10⁶ mm⁴", which reads as 80.00106 or a product of two numbers.
+//
+// Each value is written once per drawing and unit system, and kept in the
+// Cache for the next drawing: a drag step writes the forces of 1,000 loads
+// again, most of them alike.
 func (b *builder) format(q units.Kind, v float64) string {
+	k := formatKey{q, math.Float64bits(v)}
+	if s, ok := b.formats[k]; ok {
+		return s
+	}
 	s, sym := b.u.Format(q, v), b.u.Unit(q).Symbol
 	if strings.HasPrefix(sym, "10") && strings.HasSuffix(s, " "+sym) {
-		return strings.TrimSuffix(s, sym) + "× " + sym
+		s = strings.TrimSuffix(s, sym) + "× " + sym
 	}
+	if b.formats == nil {
+		b.formats = map[formatKey]string{}
+	}
+	b.formats[k] = s
 	return s
+}
+
+// formatKey is a value as format writes it: its kind and its bits (−0 is
+// not 0 to it).
+type formatKey struct {
+	q    units.Kind
+	bits uint64
 }
 
 // wrap breaks s into lines no wider than w pixels. A line's width is taken

@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"stave/fem"
+	"stave/fem/bench"
 	"stave/fem/units"
 	"stave/storage"
 )
@@ -335,5 +336,49 @@ func TestTwoDiagramsFitALaptopDrawing(t *testing.T) {
 	}
 	if s := lay.strips[0]; s.top < lay.sketchBottom || s.bottom-s.top < 72 {
 		t.Errorf("the upper diagram runs from %g to %g px under a sketch ending at %g px: want at least 72 px below it", s.top, s.bottom, lay.sketchBottom)
+	}
+}
+
+// A Cache lends each build the memory of the one before (boxes, grid,
+// labels, measured widths, written values): a drawing built with a Cache
+// that has drawn others (more loads, fewer, a bigger view, other units, the
+// same again) is the drawing built without one, item for item. A box or a
+// label left over from an earlier build would move or drop a label here, a
+// value written in other units would show. (Build's own contract; no check
+// value of its own.)
+func TestCacheLendsNothingOfEarlierDrawings(t *testing.T) {
+	crowded := bench.KeyPointModel(200, 300)
+	sparse := bench.KeyPointModel(200, 3)
+	plain := demoModel(40)
+	us := units.USCustomary
+	steps := []struct {
+		m    *fem.Model
+		w, h float32
+		u    units.System
+	}{{crowded, 1000, 800, units.SI}, {sparse, 1000, 800, units.SI}, {plain, 1000, 800, units.SI}, {crowded, 1200, 900, units.SI},
+		{plain, 1000, 800, us}, {crowded, 1000, 800, us}, {crowded, 1000, 800, units.SI}, {crowded, 1000, 800, units.SI}}
+	cache := &Cache{}
+	for i, st := range steps {
+		v := NewView(st.w, st.h)
+		v.Fit(st.m)
+		in := solved(t, st.m)
+		in.Units = st.u
+		in.Cache = nil
+		want := Build(in, v)
+		in.Cache = cache
+		got := Build(in, v)
+		if len(got.Items) != len(want.Items) {
+			t.Errorf("build %d: %d items with the Cache, %d without", i, len(got.Items), len(want.Items))
+			continue
+		}
+		for k := range got.Items {
+			if !reflect.DeepEqual(got.Items[k], want.Items[k]) {
+				t.Errorf("build %d, item %d: %+v with the Cache, %+v without", i, k, got.Items[k], want.Items[k])
+				break
+			}
+		}
+		if !reflect.DeepEqual(*got, *want) {
+			t.Errorf("build %d: the scene differs with the Cache (handles, strips or scales)", i)
+		}
 	}
 }

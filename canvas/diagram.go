@@ -81,7 +81,7 @@ func (b *builder) diagrams(lay layoutBands) {
 		// The upper curves take the place of the solution's (envelope.go).
 		envs = b.envelopeCurves(qs)
 	case b.in.Exact != nil && b.feCurves != nil:
-		exLo, exHi = exactExtremes(b.in.Exact, b.exactIntervals(), b.v, qs, b.feCurves)
+		exLo, exHi = exactExtremes(b.in.Exact, b.v, qs, b.feCurves)
 	}
 	if e := b.exact(); e != nil && envs == nil {
 		ex = exactCurves(e, b.in.Model, b.v, qs, b.in.Cache)

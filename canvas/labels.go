@@ -63,6 +63,11 @@ type label struct {
 	// then looks on the near rings only, and not even there around a
 	// place where one of them found no room (see fullCell).
 	crowd bool
+	// taken marks the spots of a crowd label that waits (see placeCrowd)
+	// that were not free when it first looked, in the band takenIn: boxes
+	// are only ever added, so they are not free when it looks again.
+	taken   uint64
+	takenIn rect
 }
 
 // labelSpot puts a label's box with the point (ax, ay) of it, in fractions
@@ -142,7 +147,11 @@ func (b *builder) place(l label) (rect, bool) {
 	// a short leader; a spot of its own across a curve; any ring. An
 	// optional label takes its own spots or nothing.
 	own := make([]try, 0, 8)
-	for _, s := range l.spots {
+	for k, s := range l.spots {
+		if k < 64 && l.taken&(1<<k) != 0 && l.takenIn == within {
+			own = append(own, try{})
+			continue
+		}
 		t := look(s, false)
 		if t.free && !b.crossesCurve(t.r) {
 			return take(t)
@@ -150,6 +159,12 @@ func (b *builder) place(l label) (rect, bool) {
 		own = append(own, t)
 	}
 	if l.crowd && !b.crowdLast {
+		for k, t := range own[:min(len(own), 64)] {
+			if !t.free {
+				l.taken |= 1 << k
+			}
+		}
+		l.takenIn = within
 		b.crowd = append(b.crowd, l)
 		return rect{}, false
 	}
@@ -226,7 +241,7 @@ func (b *builder) placeCrowd() {
 	for _, l := range b.crowd {
 		b.place(l)
 	}
-	b.crowd, b.crowdLast = nil, false
+	b.crowd, b.crowdLast = b.crowd[:0], false
 }
 
 // free reports whether r, with a little space around it, overlaps no box.
@@ -278,10 +293,12 @@ const (
 // newBoxGrid covers a scene of width × height pixels, or of 8192 px along
 // a longer side: past it, boxes share the cells at the edge.
 func newBoxGrid(width, height float32) boxGrid {
-	cells := func(px float32) int32 { return int32(max(0, min(8192, px))/gridCell) + 1 }
-	c, r := cells(width), cells(height)
+	c, r := gridCells(width), gridCells(height)
 	return boxGrid{columns: c, rows: r, newest: make([]int32, c*r)}
 }
+
+// gridCells is the number of cells of a grid along a side of px pixels.
+func gridCells(px float32) int32 { return int32(max(0, min(8192, px))/gridCell) + 1 }
 
 // cellSpan returns the cells from lo to hi along an axis of n cells;
 // false when they are too many or lo and hi are not numbers in order.

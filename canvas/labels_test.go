@@ -237,7 +237,7 @@ func TestScreenAndExportLabelTheSameResults(t *testing.T) {
 // solution's largest magnitude, nor the smallest value of a constant field.
 func labelledIn(v float64, x fem.Extreme, e *fem.Exact, q fem.Quantity) bool {
 	size := max(abs(x.Max), abs(x.Min))
-	for _, iv := range e.Intervals() {
+	for _, iv := range e.EachInterval() {
 		lo, hi := iv.Range(q)
 		size = max(size, abs(lo.Value), abs(hi.Value))
 	}

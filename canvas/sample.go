@@ -6,6 +6,7 @@ import (
 	"sort"
 
 	"stave/fem"
+	"stave/fem/units"
 )
 
 // extreme is a value and where it occurs.
@@ -326,21 +327,22 @@ func eachPixel(m *fem.Model, v View, add func(x float64, side fem.Side)) {
 
 // exactExtremes are the smallest and largest exact values of each of qs in
 // closed form, over the stretches between key points that reach into the
-// view: a stretch's every field is one polynomial (fem.Exact.Intervals).
-// Where the exact solution reaches an extreme also at the place of the
-// finite element extreme of the same kind in near, to round-off (the two
-// ends of a symmetric span, say), that place is taken, so that a label
-// pairs the two where they belong together. ivs are e's stretches
-// (fem.Exact.Intervals), worked out once for every call of a build.
-func exactExtremes(e *fem.Exact, ivs []fem.Interval, v View, qs []fem.Quantity, near []*curve) (lo, hi []extreme) {
+// view: a stretch's every field is one polynomial (fem.Exact.EachInterval),
+// read once for all of qs. Where the exact solution reaches an extreme also
+// at the place of the finite element extreme of the same kind in near, to
+// round-off (the two ends of a symmetric span, say), that place is taken, so
+// that a label pairs the two where they belong together.
+func exactExtremes(e *fem.Exact, v View, qs []fem.Quantity, near []*curve) (lo, hi []extreme) {
 	lo, hi = make([]extreme, len(qs)), make([]extreme, len(qs))
-	x0, x1 := v.ToModelX(0), v.ToModelX(v.Width)
-	for i, q := range qs {
+	for i := range qs {
 		lo[i], hi[i] = extreme{value: math.Inf(1)}, extreme{value: math.Inf(-1)}
-		for _, iv := range ivs {
-			if iv.X(1) < x0 || iv.X(0) > x1 {
-				continue
-			}
+	}
+	x0, x1 := v.ToModelX(0), v.ToModelX(v.Width)
+	for _, iv := range e.EachInterval() {
+		if iv.X(1) < x0 || iv.X(0) > x1 {
+			continue
+		}
+		for i, q := range qs {
 			l, h := iv.Range(q)
 			if fem.Beyond(lo[i].value, l.Value) {
 				lo[i] = extreme{l.X, l.Value}
@@ -349,6 +351,8 @@ func exactExtremes(e *fem.Exact, ivs []fem.Interval, v View, qs []fem.Quantity, 
 				hi[i] = extreme{h.X, h.Value}
 			}
 		}
+	}
+	for i, q := range qs {
 		size := max(math.Abs(lo[i].value), math.Abs(hi[i].value))
 		for _, p := range [2]struct {
 			ex *extreme
@@ -368,8 +372,10 @@ func exactExtremes(e *fem.Exact, ivs []fem.Interval, v View, qs []fem.Quantity, 
 // Cache keeps the sampled finite element curves between builds of the same
 // solution in the same view, so a hover or a selection change redraws without
 // reading a large solution again; after any other change it lends their
-// memory to the new curves. The zero value is ready to use; give each drawing
-// area its own Cache and do not share one between goroutines.
+// memory to the new curves. It also lends each build the layout's memory of
+// the one before and keeps the texts' widths and the values written (see
+// scratch). The zero value is ready to use; give each drawing area its own
+// Cache and do not share one between goroutines.
 type Cache struct {
 	solution  *fem.Solution
 	x0, scale float64
@@ -379,6 +385,67 @@ type Cache struct {
 	sampled   []*curve
 	half      []*curve // memory for the second half of a two-goroutine read
 	exactMem  []*curve // memory for the exact curves, read anew each build
+	scratch   scratch  // lent to each build (see lend)
+}
+
+// scratch is what a build needs only while it lays the drawing out: the
+// occupied boxes and their grid, the crowd labels waiting and the cells
+// where they found no room, the labels' items before they join the
+// scene's, the widths of the texts measured (a text's width follows from
+// its characters, size and weight alone, so it holds for every later build)
+// and the values written, in the unit system formatsIn. A drag step rebuilds the drawing of 1,000 loads with all of it.
+// items is the size of the last scene, which the next starts with room for.
+type scratch struct {
+	boxes                    []box
+	grid                     boxGrid
+	crowd                    []label
+	full                     map[[2]int32]fullCell
+	texts, backings, leaders []Item
+	widths                   map[textKey]float32
+	formats                  map[formatKey]string
+	formatsIn                units.System
+	items                    int
+}
+
+// maxWidths bounds the texts a Cache remembers the widths of, and the
+// values it remembers written: past it they are forgotten and measured or
+// written anew.
+const maxWidths = 1 << 12
+
+// lend gives b the scratch memory of the last build, emptied; nothing when
+// c is nil.
+func (c *Cache) lend(b *builder) {
+	if c == nil {
+		return
+	}
+	m := c.scratch
+	c.scratch = scratch{}
+	b.boxes = m.boxes[:0]
+	if g := m.grid; g.newest != nil && g.columns == gridCells(b.s.Width) && g.rows == gridCells(b.s.Height) {
+		clear(g.newest)
+		b.boxGrid = boxGrid{columns: g.columns, rows: g.rows, newest: g.newest, entries: g.entries[:0], large: g.large[:0]}
+	}
+	b.crowd, b.full = m.crowd[:0], m.full
+	clear(b.full)
+	b.texts, b.backings, b.leaders = m.texts[:0], m.backings[:0], m.leaders[:0]
+	if len(m.widths) <= maxWidths {
+		b.widths = m.widths
+	}
+	if len(m.formats) <= maxWidths && m.formatsIn == b.u {
+		b.formats = m.formats
+	}
+	b.s.Items = make([]Item, 0, m.items)
+}
+
+// keep takes back the scratch memory of b, whose scene is made; nothing
+// when c is nil.
+func (c *Cache) keep(b *builder) {
+	if c == nil {
+		return
+	}
+	c.scratch = scratch{boxes: b.boxes, grid: b.boxGrid, crowd: b.crowd, full: b.full,
+		texts: b.texts, backings: b.backings, leaders: b.leaders, widths: b.widths,
+		formats: b.formats, formatsIn: b.u, items: len(b.s.Items)}
 }
 
 // grow returns the first n of *cs, adding empty curves as needed.

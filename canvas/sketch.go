@@ -865,7 +865,7 @@ func (b *builder) deflected(lay layoutBands) *deflectedShape {
 	b.marker(at, 2.5, deformedColour, false)
 	var exact *extreme
 	if e := b.in.Exact; e != nil {
-		lo, hi := exactExtremes(e, b.exactIntervals(), b.v, []fem.Quantity{fem.QDeflection}, []*curve{b.deflection})
+		lo, hi := exactExtremes(e, b.v, []fem.Quantity{fem.QDeflection}, []*curve{b.deflection})
 		exact = &hi[0]
 		if peak.value < 0 {
 			exact = &lo[0]

@@ -63,7 +63,7 @@ func (v *Interval) setClosed(s *exactStretch, t0, span, start, end float64) {
 	for q := range v.degree {
 		v.degree[q] = -1
 	}
-	v.known, v.endsKnown = 0, false
+	v.known, v.endsKnown, v.oneFibre = 0, false, false
 }
 
 // closedAt writes the fields at ξ of a closed-form interval to f.

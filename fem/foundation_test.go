@@ -521,7 +521,7 @@ func TestFoundationWalk(t *testing.T) {
 	}
 	var mLo, mHi, wLo Point
 	mLo.Value, mHi.Value, wLo.Value = math.Inf(1), math.Inf(-1), math.Inf(1)
-	for _, v := range e.Intervals() {
+	for _, v := range e.EachInterval() {
 		if _, ok := v.Polynomial(QDeflection); ok {
 			t.Fatal("an exact interval on a foundation claims to be a polynomial")
 		}
@@ -904,7 +904,7 @@ func TestFoundationTurnNextToAKeyPoint(t *testing.T) {
 		}
 		want := P * beta * beta / k * math.Exp(-math.Pi/4) * math.Sin(math.Pi/4)
 		best := Point{Value: math.Inf(-1)}
-		for _, v := range e.Intervals() {
+		for _, v := range e.EachInterval() {
 			if _, hi := v.Range(QRotation); hi.Value > best.Value {
 				best = hi
 			}
@@ -972,5 +972,59 @@ func TestDefaultMeshOnSkinFrictionKeepsTheBeam(t *testing.T) {
 				}
 			}
 		})
+	}
+}
+
+// EachInterval yields each stretch as a fresh Interval of it would hold it,
+// though it reuses one Interval: on a beam founded along its middle third
+// only, whose stretches alternate between polynomials (off the bed) and
+// closed forms (on it), every stretch gives the same ends and the same range
+// of every quantity, to the bit, as an Interval of its own. An Interval that
+// kept a range, an end or a closed form's samples from the stretch before
+// would show here. (EachInterval's own contract; no check value of its own.)
+func TestEachIntervalIsAFreshInterval(t *testing.T) {
+	const L, k = 12.0, 6.4e6
+	m := groundModel(L, k)
+	m.Foundations[0].Start, m.Foundations[0].End = L/3, 2*L/3
+	m.Supports = append(m.Supports, Support{X: 0, Kind: Pinned}, Support{X: L, Kind: Roller})
+	m.PointLoads = []PointLoad{{X: 1, Transverse: -30e3}, {X: 5, Transverse: -80e3, Axial: 10e3}, {X: 6.5, Moment: 12e3}, {X: 10, Transverse: 20e3}}
+	m.DistributedLoad = []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{X: 2, Intensity: -5e3}, {X: 11, Intensity: -9e3}}}}
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(e.stretches) < 6 {
+		t.Fatalf("%d stretches: the model should give a dozen, polynomials and closed forms", len(e.stretches))
+	}
+	closed, n := 0, 0
+	for j, got := range e.EachInterval() {
+		if j != n {
+			t.Fatalf("stretch %d yielded as %d", n, j)
+		}
+		n++
+		var w Interval
+		st := &e.stretches[j]
+		st.interval(0, 1, st.start, st.end, &w)
+		if _, ok := w.Polynomial(QDeflection); !ok {
+			closed++
+		}
+		for _, q := range Quantities() {
+			glo, ghi := got.Range(q)
+			wlo, whi := w.Range(q)
+			if glo != wlo || ghi != whi {
+				t.Errorf("stretch %d, %s: range %v … %v, a fresh Interval gives %v … %v", j, q, glo, ghi, wlo, whi)
+			}
+		}
+		for i := range 2 {
+			if *got.End(i) != *w.End(i) {
+				t.Errorf("stretch %d, end %d: %+v, a fresh Interval gives %+v", j, i, *got.End(i), *w.End(i))
+			}
+		}
+	}
+	if n != len(e.stretches) {
+		t.Errorf("%d stretches yielded of %d", n, len(e.stretches))
+	}
+	if closed == 0 || closed == n {
+		t.Errorf("%d of %d stretches in closed form: the test needs both kinds", closed, n)
 	}
 }

@@ -333,8 +333,9 @@ func refineSequentially(t *testing.T, m *Model) {
 	}
 	fields := make([]elementField, len(s.Mesh.Elements))
 	r := stretchRefiner{x: s.Mesh.X, disp: disp, fields: fields, order: LinearBar}
+	r.findNodes(stretches)
 	for j := range stretches {
-		r.setup(&stretches[j])
+		r.setup(stretches, j)
 		r.split(keys[j], keys[j+1], r.startTaylor(&stretches[j], keys[j], keys[j+1]))
 	}
 	for i := range disp {

@@ -47,7 +47,7 @@ type Feature struct {
 
 // Features lists every feature of m in model order (not sorted, not merged).
 func Features(m *Model) []Feature {
-	out := make([]Feature, 0, 2*len(m.Segments)+len(m.Supports)+len(m.PointLoads))
+	out := make([]Feature, 0, featureCount(m))
 	for i, s := range m.Segments {
 		out = append(out, Feature{s.Start, Item{Kind: SegmentItem, Index: i}, 0}, Feature{s.End, Item{Kind: SegmentItem, Index: i}, 1})
 	}
@@ -135,6 +135,22 @@ type Place struct {
 	Property Property
 	Dof      Dof // for MotionStiffnessProperty, SettlementProperty and GravityProperty
 	Vertex   int // for PointXProperty and PointIntensityProperty: the 0-based index of the load point; for FactorCaseProperty and FactorProperty, of the factor
+}
+
+// featureCount is len(Features(m)), counted without listing them.
+func featureCount(m *Model) int {
+	n := 2*len(m.Segments) + len(m.Supports) + len(m.Hinges) + 2*len(m.Foundations)
+	loads := func(points []PointLoad, lines []DistributedLoad) {
+		n += len(points)
+		for _, d := range lines {
+			n += len(d.Points)
+		}
+	}
+	loads(m.PointLoads, m.DistributedLoad)
+	for c := range m.Cases {
+		loads(m.Cases[c].PointLoads, m.Cases[c].DistributedLoad)
+	}
+	return n
 }
 
 // loadFeatures appends the features of one set of loads, of case c (see Item).

@@ -13,8 +13,10 @@ import (
 // every break point of the distributed loads (Features), clamped to the
 // member, with points closer than mergeTolerance·L taken as one.
 func KeyPoints(m *Model) []float64 {
-	pts := []float64{0, m.Length()}
-	for _, f := range Features(m) {
+	features := Features(m)
+	pts := make([]float64, 0, len(features)+2)
+	pts = append(pts, 0, m.Length())
+	for _, f := range features {
 		pts = append(pts, f.X)
 	}
 	return mergeSorted(pts, m.Length())

@@ -125,8 +125,8 @@ func NewComparison(s *Solution, e *Exact) *Comparison {
 		return nil
 	}
 	c := &Comparison{solution: s, exact: &exactMeasures{}}
-	for j, v := range e.Intervals() {
-		c.exact.add(&e.stretches[j], &v)
+	for j, v := range e.EachInterval() {
+		c.exact.add(&e.stretches[j], v)
 	}
 	return c
 }

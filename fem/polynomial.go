@@ -408,7 +408,10 @@ func maxAbsBeyond(p *Polynomial, best, noise float64) float64 {
 	}
 	dp := p.Derivative()
 	ddp := dp.Derivative()
-	for _, xi := range append(rb[:nb:nb], rh[:nh]...) {
+	var starts [4]float64 // both parts' turning points, on the stack
+	k := copy(starts[:], rb[:nb])
+	k += copy(starts[k:], rh[:nh])
+	for _, xi := range starts[:k] {
 		found = max(found, math.Abs(p.At(newtonTurn(&dp, &ddp, xi))))
 	}
 	return max(best, found)

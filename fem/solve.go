@@ -75,13 +75,14 @@ func conditionWarning(problem string, cond float64) string {
 	return ""
 }
 
-// Solve validates, meshes, assembles and solves the model.
+// Solve validates, meshes, assembles and solves the model: BuildMesh and
+// SolveOnMesh on one prepared member.
 func Solve(m *Model) (*Solution, error) {
-	mesh, err := BuildMesh(m)
+	p, err := Prepare(m)
 	if err != nil {
 		return nil, err
 	}
-	return SolveOnMesh(m, mesh)
+	return p.Solve(p.Mesh())
 }
 
 // SolveOnMesh solves the model on a given mesh, which must hold a node at
@@ -290,12 +291,17 @@ const smallestNormal = 0x1p-1022
 // solver. (Displacements lost to zero are refused where they are solved
 // for, assembly.solve.)
 func checkUnderflow(s *Solution) error {
-	largest := 0.0
+	// The largest magnitude by the bits of |v|, which order as the
+	// magnitudes do, a NaN's above all: integer comparisons, where the
+	// float max, with its care for NaN and −0, took 0.12 s of the 0.71 s
+	// of Structure.Solve in a profile of 400 drag steps (10,000 elements).
+	var bits uint64
 	for _, d := range s.Displacement {
 		for _, v := range d {
-			largest = max(largest, math.Abs(v))
+			bits = max(bits, math.Float64bits(v)&^(1<<63))
 		}
 	}
+	largest := math.Float64frombits(bits)
 	applied, reactions := 0.0, 0.0
 	for i := range 3 {
 		applied = max(applied, math.Abs(s.Equilibrium.Applied[i]))

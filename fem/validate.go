@@ -777,7 +777,7 @@ func (v *validator) memory(m *Model) {
 	// every stretch between them at least one element more than its share.
 	// Each load case is solved and kept on its own, so the stages count
 	// once per case.
-	keys := float64(len(Features(m)) + 2)
+	keys := float64(featureCount(m) + 2)
 	elements := float64(max(m.Mesh.Elements, 0)) + keys
 	if h := m.Mesh.MaxElementLength; isFinite(h) && h > 0 {
 		elements += math.Ceil(v.L / h) // +Inf when L/h overflows

@@ -592,20 +592,28 @@ func cubicTaylorShift(p *Polynomial, t0, scale float64) {
 	p[1], p[2], p[3] = p[1]*scale, p[2]*s2, p[3]*s2*scale
 }
 
-// Intervals returns the exact solution stretch by stretch, between
-// neighbouring key points, in order along the member: on each every field
-// is one polynomial, so checks of the exact solution alone take their
-// extremes stretch by stretch.
-func (e *Exact) Intervals() []Interval {
-	if e == nil {
-		return nil
+// EachInterval yields the exact solution stretch by stretch, between
+// neighbouring key points, in order along the member, with each stretch's
+// index: on each every field is one polynomial or one closed form, so
+// checks of the exact solution alone take their extremes stretch by
+// stretch. It yields one Interval, reused for each stretch: copy what you
+// keep. (A slice of them all, as Intervals returned before, was about a
+// kilobyte a stretch, made three times per drag step on a beam of 1,000
+// loads.)
+func (e *Exact) EachInterval() iter.Seq2[int, *Interval] {
+	return func(yield func(int, *Interval) bool) {
+		if e == nil {
+			return
+		}
+		var v Interval
+		for j := range e.stretches {
+			s := &e.stretches[j]
+			s.interval(0, 1, s.start, s.end, &v)
+			if !yield(j, &v) {
+				return
+			}
+		}
 	}
-	out := make([]Interval, len(e.stretches))
-	for j := range e.stretches {
-		s := &e.stretches[j]
-		s.interval(0, 1, s.start, s.end, &out[j])
-	}
-	return out
 }
 
 // Elements returns the elements from ≤ i < to of s, in order along the

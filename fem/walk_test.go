@@ -74,7 +74,7 @@ var polynomialQuantities = fem.Quantities()[:fem.QCombinedStress]
 
 // An element's polynomials are its interpolation (InElement) and its exact
 // polynomials are the exact solution (Exact.At), to round-off of the
-// quantity's size, at random points; the stretches of Intervals too.
+// quantity's size, at random points; the stretches of EachInterval too.
 func TestIntervalsAreTheFields(t *testing.T) {
 	forRandomModels(t, 41, everyLoadKind, func(t *testing.T, rnd *rand.Rand, m *fem.Model) {
 		s, e := solveBothModels(t, m)
@@ -96,7 +96,7 @@ func TestIntervalsAreTheFields(t *testing.T) {
 				}
 			}
 		}
-		for j, iv := range e.Intervals() {
+		for j, iv := range e.EachInterval() {
 			xi := rnd.Float64()
 			ex := e.At(iv.X(xi), fem.Right)
 			for _, q := range polynomialQuantities {

@@ -249,3 +249,16 @@ func TestEquilibrateSkipsNothingThatMatters(t *testing.T) {
 		}
 	}
 }
+
+// BenchmarkEquilibrate scales a badly scaled band of the shape of the exact
+// solution's beam system on a beam of 1,000 loads (4,033 equations, 6
+// sub- and 6 superdiagonals), up to 8 passes, from a fresh copy each time.
+func BenchmarkEquilibrate(b *testing.B) {
+	rnd := rand.New(rand.NewPCG(7, 8))
+	orig := badlyScaled(rnd, bandCase{4033, 6, 6, mixedRows})
+	a := &General{N: orig.N, KL: orig.KL, KU: orig.KU, Data: make([]float64, len(orig.Data))}
+	for b.Loop() {
+		copy(a.Data, orig.Data)
+		Equilibrate(a, 8)
+	}
+}

@@ -360,14 +360,14 @@ func (p *Probe) foldExact() {
 	}
 	p.ex = p.newPeaks()
 	var parts, columns sweep
-	for _, iv := range p.exact.Intervals() {
+	for _, iv := range p.exact.EachInterval() {
 		mid := iv.X(0.5)
-		p.ex.takeStress(p.model.SegmentAt(mid), &iv)
+		p.ex.takeStress(p.model.SegmentAt(mid), iv)
 		for k := range holding(&parts, p.parts, mid) {
-			p.ex.takeDeflection(k, &iv, &p.chords[k][1])
+			p.ex.takeDeflection(k, iv, &p.chords[k][1])
 		}
 		for k := range holding(&columns, p.columns, mid) {
-			p.ex.takeCompression(k, &iv)
+			p.ex.takeCompression(k, iv)
 		}
 	}
 }
