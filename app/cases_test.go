@@ -315,24 +315,43 @@ func TestDeletingACaseKeepsWhatIsShown(t *testing.T) {
 	}
 }
 
-// The window's checks name a train that a combination takes as every
-// other message does, by its name (docs/format.md, trains): the caution
-// said "moving load train 1" of the file's only train, named "pair".
-func TestCombinationTrainCautionNamesTheTrain(t *testing.T) {
+// pairTrain is two axles of 42 kN 3.2 m apart (demo data).
+var pairTrain = moving.Train{Name: "pair", Axles: []moving.Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}}
+
+// twoSpansWithTrains is testdata/two_span_cases.json with trains, each
+// taken by its combination "both" with a factor of 1.5.
+func twoSpansWithTrains(t *testing.T, trains ...moving.Train) *storage.Project {
+	t.Helper()
 	p, err := storage.Load("../testdata/two_span_cases.json")
 	if err != nil {
 		t.Fatal(err)
 	}
-	p.Trains = []moving.Train{{Name: "pair", Axles: []moving.Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}}}
-	p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 0, Factor: 1.5}}
-	w, q := newTestWindow(t, p)
-	finished(t, w, q)
+	p.Trains = moving.CloneTrains(trains) // the tests' trains stay as written
+	for i := range trains {
+		p.Model.Combinations[0].Trains = append(p.Model.Combinations[0].Trains, fem.TrainFactor{Train: i, Factor: 1.5})
+	}
+	return p
+}
+
+// trainCautions are the names of the window's train_not_checked cautions.
+func trainCautions(w *Window) []string {
 	var names []string
 	for _, f := range w.checks {
 		if f.Code == analysis.CodeTrainNotChecked {
 			names = append(names, f.Name)
 		}
 	}
+	return names
+}
+
+// The window's checks name a train that a combination takes as every
+// other message does, by its name (docs/format.md, trains): the caution
+// said "moving load train 1" of the file's only train, named "pair".
+func TestCombinationTrainCautionNamesTheTrain(t *testing.T) {
+	p := twoSpansWithTrains(t, pairTrain)
+	w, q := newTestWindow(t, p)
+	finished(t, w, q)
+	names := trainCautions(w)
 	if want := `combination "both" with moving load train "pair"`; !slices.Contains(names, want) {
 		t.Errorf("the train cautions are %q, want %q", names, want)
 	}
@@ -342,12 +361,7 @@ func TestCombinationTrainCautionNamesTheTrain(t *testing.T) {
 // the main window's checks up to date at once: the caution kept naming the
 // train by its old name until the next edit of the member.
 func TestTrainCautionFollowsTheMovingLoadsWindow(t *testing.T) {
-	p, err := storage.Load("../testdata/two_span_cases.json")
-	if err != nil {
-		t.Fatal(err)
-	}
-	p.Trains = []moving.Train{{Name: "pair", Axles: []moving.Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}}}
-	p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 0, Factor: 1.5}}
+	p := twoSpansWithTrains(t, pairTrain)
 	w, q := newTestWindow(t, p)
 	finished(t, w, q)
 	w.showMovingLoads()
@@ -355,12 +369,7 @@ func TestTrainCautionFollowsTheMovingLoadsWindow(t *testing.T) {
 	mw.name.SetText("heavy pair")
 	mw.apply()
 	finished(t, w, q)
-	var names []string
-	for _, f := range w.checks {
-		if f.Code == analysis.CodeTrainNotChecked {
-			names = append(names, f.Name)
-		}
-	}
+	names := trainCautions(w)
 	if want := `combination "both" with moving load train "heavy pair"`; !slices.Contains(names, want) {
 		t.Errorf("after renaming the train the cautions are %q, want %q", names, want)
 	}
@@ -370,15 +379,8 @@ func TestTrainCautionFollowsTheMovingLoadsWindow(t *testing.T) {
 // renumbers the others: a combination taking the second of two trains
 // took none, or a train that was not there, once the first was deleted.
 func TestDeletingATrainKeepsTheCombinationsTrains(t *testing.T) {
-	p, err := storage.Load("../testdata/two_span_cases.json")
-	if err != nil {
-		t.Fatal(err)
-	}
-	p.Trains = []moving.Train{
-		{Name: "pair", Axles: []moving.Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}},
-		{Name: "cart", Axles: []moving.Axle{{Load: 5e3}, {Load: 5e3, Spacing: 1}}},
-	}
-	p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 0, Factor: 1.5}, {Train: 1, Factor: 1.2}}
+	p := twoSpansWithTrains(t, pairTrain, moving.Train{Name: "cart", Axles: []moving.Axle{{Load: 5e3}, {Load: 5e3, Spacing: 1}}})
+	p.Model.Combinations[0].Trains[1].Factor = 1.2
 	w, q := newTestWindow(t, p)
 	finished(t, w, q)
 	if err := w.apply("set the mesh", func(m *fem.Model) error { m.Mesh.Elements = 40; return nil }); err != nil {
@@ -396,12 +398,7 @@ func TestDeletingATrainKeepsTheCombinationsTrains(t *testing.T) {
 	if got := w.project.Model.Combinations[0].Trains; !reflect.DeepEqual(got, want) {
 		t.Errorf("undoing an edit made before the train was deleted gives the combination %+v, want %+v", got, want)
 	}
-	var names []string
-	for _, f := range w.checks {
-		if f.Code == analysis.CodeTrainNotChecked {
-			names = append(names, f.Name)
-		}
-	}
+	names := trainCautions(w)
 	if want := `combination "both" with moving load train "cart"`; !slices.Contains(names, want) {
 		t.Errorf("after deleting the first train the cautions are %q, want %q", names, want)
 	}

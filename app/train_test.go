@@ -16,7 +16,6 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas/report"
-	"stave/fem"
 	"stave/fem/moving"
 	"stave/fem/units"
 	"stave/storage"
@@ -371,12 +370,7 @@ func TestMovingWindowTakesATypedPoint(t *testing.T) {
 // worst arrangement with the train on top, as the command line's trains'
 // results give it (report.TrainEnvelopes), and back the train alone.
 func TestMovingWindowShowsACombinationWithItsTrain(t *testing.T) {
-	p, err := storage.Load("../testdata/two_span_cases.json")
-	if err != nil {
-		t.Fatal(err)
-	}
-	p.Trains = []moving.Train{{Name: "pair", Axles: []moving.Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}}}
-	p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 0, Factor: 1.5}}
+	p := twoSpansWithTrains(t, pairTrain)
 	results, err := report.TrainEnvelopes(p)
 	if err != nil || len(results) != 1 || len(results[0].Combinations) != 1 {
 		t.Fatalf("the command line's trains' results: %v, %+v", err, results)
