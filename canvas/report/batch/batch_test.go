@@ -125,14 +125,7 @@ func TestLinesAgreeWithSingleFileAnalysis(t *testing.T) {
 	names = append(names, writeSchedule(t, dir, 12)...)
 	lines, _ := runAll(t, names, Options{})
 	for i, name := range names {
-		p, err := storage.Load(name)
-		if err != nil {
-			t.Fatal(err)
-		}
-		src, err := report.Analyse(context.Background(), p)
-		if err != nil {
-			t.Fatal(err)
-		}
+		src := analysed(t, name)
 		var governing, deflection *Check
 		failed := false
 		for _, r := range src.Analysis.Checks {
@@ -149,8 +142,8 @@ func TestLinesAgreeWithSingleFileAnalysis(t *testing.T) {
 			}
 		}
 		m := lines[i]
-		if m.File != name || m.Mark != p.Notes.Member {
-			t.Errorf("line %d is %s (%s), want %s (%s)", i, m.File, m.Mark, name, p.Notes.Member)
+		if m.File != name || m.Mark != src.Project.Notes.Member {
+			t.Errorf("line %d is %s (%s), want %s (%s)", i, m.File, m.Mark, name, src.Project.Notes.Member)
 		}
 		if !sameCheck(m.Governing, governing) {
 			t.Errorf("%s: governing %+v, the analysis gives %+v", name, m.Governing, governing)
@@ -432,14 +425,7 @@ func TestLinesSayTheirAccuracy(t *testing.T) {
 	names := models(t)
 	lines, _ := runAll(t, names, Options{})
 	for i, name := range names {
-		p, err := storage.Load(name)
-		if err != nil {
-			t.Fatal(err)
-		}
-		src, err := report.Analyse(context.Background(), p)
-		if err != nil {
-			t.Fatal(err)
-		}
+		src := analysed(t, name)
 		sum := src.Analysis.Summary()
 		worst, ok := sum.Worst()
 		m := lines[i]
@@ -464,4 +450,18 @@ func TestLinesSayTheirAccuracy(t *testing.T) {
 			t.Errorf("the %s output does not say %q:\n%s", format, want, got)
 		}
 	}
+}
+
+// analysed is the file name loaded and analysed as stave solve has it.
+func analysed(t *testing.T, name string) report.Source {
+	t.Helper()
+	p, err := storage.Load(name)
+	if err != nil {
+		t.Fatal(err)
+	}
+	src, err := report.Analyse(context.Background(), p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return src
 }
