@@ -73,8 +73,8 @@ func (w *Window) showSectionCalculator() {
 	showNow := func() {
 		if i := which(); i >= 0 && i < len(w.project.Model.Segments) {
 			sec, u := w.project.Model.Segments[i].Section, w.units
-			now.SetText(fmt.Sprintf("Segment now: A = %s    I = %s    c = %s", u.Format(units.Area, sec.Area),
-				u.Format(units.SecondMoment, sec.SecondMoment), u.Format(units.Dimension, sec.FibreDistance)))
+			now.SetText(fmt.Sprintf("Segment now: A = %s    I = %s    c = %s", u.Show(units.Area, sec.Area),
+				u.Show(units.SecondMoment, sec.SecondMoment), u.Show(units.Dimension, sec.FibreDistance)))
 		}
 	}
 	showNow()
@@ -103,9 +103,9 @@ func (w *Window) showSectionCalculator() {
 			return
 		}
 		u := w.units
-		result.SetText(fmt.Sprintf("A = %s    I = %s    c = %s    S = I/c = %s",
-			u.Format(units.Area, props.Area), u.Format(units.SecondMoment, props.SecondMoment),
-			u.Format(units.Dimension, props.FibreDistance), u.Format(units.SectionModulus, props.SectionModulus)))
+		result.SetText(fmt.Sprintf("A = %s    I = %s    c = %s\nS = I/c = %s",
+			u.Show(units.Area, props.Area), u.Show(units.SecondMoment, props.SecondMoment),
+			u.Show(units.Dimension, props.FibreDistance), u.Show(units.SectionModulus, props.SectionModulus)))
 	}
 	shapes := make([]string, len(sectionShapes))
 	for i, s := range sectionShapes {

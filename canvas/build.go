@@ -381,16 +381,8 @@ func (b *builder) arrow(tail, tip Point, c color.NRGBA, width, head float32) {
 	b.polygon(c, color.NRGBA{}, 0, tip, Point{base.X - uy*half, base.Y + ux*half}, Point{base.X + uy*half, base.Y - ux*half})
 }
 
-// format writes an SI value in the chosen unit system; a unit that starts
-// with a power of ten gets its multiplication sign: "80.00 × 10⁶ mm⁴", not
-// "80.00 10⁶ mm⁴", which reads as 80.00106 or a product of two numbers.
-func (b *builder) format(q units.Kind, v float64) string {
-	s, sym := b.u.Format(q, v), b.u.Unit(q).Symbol
-	if strings.HasPrefix(sym, "10") && strings.HasSuffix(s, " "+sym) {
-		return strings.TrimSuffix(s, sym) + "× " + sym
-	}
-	return s
-}
+// format writes an SI value in the chosen unit system, to be read (units.System.Show).
+func (b *builder) format(q units.Kind, v float64) string { return b.u.Show(q, v) }
 
 // wrap breaks s into lines no wider than w pixels. A line's width is taken
 // as the sum of its words' and spaces' widths, each measured once: the
