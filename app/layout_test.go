@@ -95,8 +95,10 @@ func TestChoicesShowTheirWholeText(t *testing.T) {
 			for _, o := range s.Options {
 				// The room for the text: the select's width less its
 				// icon, the padding by the icon, and the label's inset
-				// each side (fyne's selectRenderer.Layout, v2.7).
-				room := s.Size().Width - theme.IconInlineSize() - theme.InnerPadding() - 3*theme.Padding()
+				// each side (fyne's selectRenderer.Layout, v2.7), in
+				// the theme the select is shown in.
+				size := func(n fyne.ThemeSizeName) float32 { return theme.SizeForWidget(n, s) }
+				room := s.Size().Width - size(theme.SizeNameInlineIcon) - size(theme.SizeNameInnerPadding) - 3*size(theme.SizeNamePadding)
 				if need := fyne.MeasureText(o, theme.TextSize(), fyne.TextStyle{}).Width; need > room+0.5 {
 					t.Errorf("%s: the choice of %q has %.0f px for its text, %q needs %.0f", name, s.Selected, room, o, need)
 				}
@@ -232,4 +234,22 @@ func envelopeRows(t *testing.T, r *readout, q fem.Quantity) (lo, hi [readoutColu
 		t.Fatalf("the envelope's readout has %d rows, want two per quantity", len(r.rows))
 	}
 	return r.rows[2*int(q)], r.rows[2*int(q)+1]
+}
+
+// smallLaptop is the content of a window filling a screen of 1024 × 640
+// pixels under its menu bar.
+var smallLaptop = fyne.NewSize(1024, 610)
+
+// The window fits a screen of 1024 × 640 with the caution line at its foot
+// in sight: there the bars above and below the drawing wrap into more
+// rows, and with fyne's padding they and the drawing asked for 659 px, so
+// the window grew past the screen's foot and the caution with it.
+func TestWindowFitsASmallLaptop(t *testing.T) {
+	for _, name := range []string{"demo.json", "two_span_cases.json", "moving/runway.json"} {
+		w, _ := openTestdata(t, name, smallLaptop)
+		if need := w.win.Content().MinSize(); need.Height > smallLaptop.Height || need.Width > smallLaptop.Width {
+			t.Errorf("%s: the window needs %.0f × %.0f px, the screen has %.0f × %.0f under the menu bar",
+				name, need.Width, need.Height, smallLaptop.Width, smallLaptop.Height)
+		}
+	}
 }
