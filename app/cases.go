@@ -105,7 +105,7 @@ func (r *readout) showEnvelope(w *Window, x float64) bool {
 	for _, q := range fem.Quantities() {
 		unit := q.Info().Unit
 		value := func(f fem.Fields) string { return shortNumber(w.units.ToDisplay(unit, q.Of(&f))) }
-		lo, hi := quantityRow(w.units, q, " min"), quantityRow(w.units, q, " max")
+		lo, hi := quantityRow(w.units, q, envelopeMin), quantityRow(w.units, q, envelopeMax)
 		lo[columnExact], hi[columnExact] = "—", "—"
 		if exact {
 			lo[columnExact], hi[columnExact] = value(ex.Lo), value(ex.Hi)
