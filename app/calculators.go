@@ -214,7 +214,7 @@ func (w *Window) showMaterials() {
 // showCheckLimits edits the project's deflection limit and safety factor.
 func (w *Window) showCheckLimits() {
 	f := newCheckLimitsForm(w.project.View)
-	dialog.ShowForm("Check limits", "Apply", "Cancel", f.items, func(ok bool) {
+	w.showForm("Check limits", "Apply", f.items, func(ok bool) {
 		if !ok {
 			return
 		}
@@ -225,7 +225,7 @@ func (w *Window) showCheckLimits() {
 			return
 		}
 		w.setCheckLimits(n, sf)
-	}, w.win)
+	})
 }
 
 // checkLimitsForm is the content of the Check limits dialog: the span/n of

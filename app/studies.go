@@ -152,7 +152,7 @@ func (w *Window) showConvergence() {
 func (w *Window) runAdaptive() {
 	target := widget.NewEntry()
 	target.SetText("1 %")
-	form := dialog.NewForm("Adaptive refinement", "Refine", "Cancel",
+	form := w.showForm("Adaptive refinement", "Refine",
 		[]*widget.FormItem{widget.NewFormItem("Target error (energy norm)", target)},
 		func(ok bool) {
 			if !ok {
@@ -164,9 +164,8 @@ func (w *Window) runAdaptive() {
 				return
 			}
 			w.startAdaptive(t)
-		}, w.win)
+		})
 	form.Resize(fyne.NewSize(460, 180))
-	form.Show()
 }
 
 // startAdaptive refines towards target in the background.
