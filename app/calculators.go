@@ -130,7 +130,7 @@ func (w *Window) showSectionCalculator() {
 		compute()
 	})
 	choose.SetSelectedIndex(0)
-	fill := widget.NewButton("Fill A, I and c of the segment", func() {
+	fill := newRingButton("Fill A, I and c of the segment", func() {
 		if propsErr != nil {
 			w.setStatus("section not filled: %v", propsErr)
 			return
@@ -192,7 +192,7 @@ func (w *Window) showMaterials() {
 	}
 	strength := widget.NewLabel(fmt.Sprintf("The strength goes into the segment's allowable stress as it is; the stress check divides it by the safety factor, now %s (Study ▸ Check limits).", units.FormatNumber(factor)))
 	strength.Wrapping = fyne.TextWrapWord
-	fill := widget.NewButton("Fill E, density, α and strength of the segment", func() {
+	fill := newRingButton("Fill E, density, α and strength of the segment", func() {
 		i := which()
 		if w.apply(fmt.Sprintf("make segment %d %s", i+1, chosen.Material.Name), func(m *fem.Model) error {
 			m.Segments[i].Material = chosen.Material

@@ -91,6 +91,8 @@ func dialogWidgets(t *testing.T, w *Window) (selects []*widget.Select, entries [
 			entries = append(entries, v)
 		case *widget.Button:
 			buttons = append(buttons, v)
+		case *ringButton:
+			buttons = append(buttons, &v.Button)
 		case *widget.Label:
 			labels = append(labels, v)
 		}
