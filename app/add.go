@@ -446,7 +446,7 @@ func (w *Window) showAddForm() {
 	f := newAddForm(w)
 	d := dialog.NewCustomWithoutButtons("Add to the member", f.content, w.win)
 	f.onAdded = d.Hide
-	add := widget.NewButton("Add", func() { f.submit() })
+	add := newRingButton("Add", func() { f.submit() })
 	add.Importance = widget.HighImportance
 	d.SetButtons([]fyne.CanvasObject{widget.NewButton("Cancel", d.Hide), add})
 	d.Resize(fyne.NewSize(600, 470))

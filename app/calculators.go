@@ -73,8 +73,8 @@ func (w *Window) showSectionCalculator() {
 	showNow := func() {
 		if i := which(); i >= 0 && i < len(w.project.Model.Segments) {
 			sec, u := w.project.Model.Segments[i].Section, w.units
-			now.SetText(fmt.Sprintf("Segment now: A = %s    I = %s    c = %s", u.Format(units.Area, sec.Area),
-				u.Format(units.SecondMoment, sec.SecondMoment), u.Format(units.Dimension, sec.FibreDistance)))
+			now.SetText(fmt.Sprintf("Segment now: A = %s    I = %s    c = %s", u.Show(units.Area, sec.Area),
+				u.Show(units.SecondMoment, sec.SecondMoment), u.Show(units.Dimension, sec.FibreDistance)))
 		}
 	}
 	showNow()
@@ -103,9 +103,9 @@ func (w *Window) showSectionCalculator() {
 			return
 		}
 		u := w.units
-		result.SetText(fmt.Sprintf("A = %s    I = %s    c = %s    S = I/c = %s",
-			u.Format(units.Area, props.Area), u.Format(units.SecondMoment, props.SecondMoment),
-			u.Format(units.Dimension, props.FibreDistance), u.Format(units.SectionModulus, props.SectionModulus)))
+		result.SetText(fmt.Sprintf("A = %s    I = %s    c = %s\nS = I/c = %s",
+			u.Show(units.Area, props.Area), u.Show(units.SecondMoment, props.SecondMoment),
+			u.Show(units.Dimension, props.FibreDistance), u.Show(units.SectionModulus, props.SectionModulus)))
 	}
 	shapes := make([]string, len(sectionShapes))
 	for i, s := range sectionShapes {
@@ -130,7 +130,7 @@ func (w *Window) showSectionCalculator() {
 		compute()
 	})
 	choose.SetSelectedIndex(0)
-	fill := widget.NewButton("Fill A, I and c of the segment", func() {
+	fill := newRingButton("Fill A, I and c of the segment", func() {
 		if propsErr != nil {
 			w.setStatus("section not filled: %v", propsErr)
 			return
@@ -192,7 +192,7 @@ func (w *Window) showMaterials() {
 	}
 	strength := widget.NewLabel(fmt.Sprintf("The strength goes into the segment's allowable stress as it is; the stress check divides it by the safety factor, now %s (Study ▸ Check limits).", units.FormatNumber(factor)))
 	strength.Wrapping = fyne.TextWrapWord
-	fill := widget.NewButton("Fill E, density, α and strength of the segment", func() {
+	fill := newRingButton("Fill E, density, α and strength of the segment", func() {
 		i := which()
 		if w.apply(fmt.Sprintf("make segment %d %s", i+1, chosen.Material.Name), func(m *fem.Model) error {
 			m.Segments[i].Material = chosen.Material
@@ -214,7 +214,7 @@ func (w *Window) showMaterials() {
 // showCheckLimits edits the project's deflection limit and safety factor.
 func (w *Window) showCheckLimits() {
 	f := newCheckLimitsForm(w.project.View)
-	dialog.ShowForm("Check limits", "Apply", "Cancel", f.items, func(ok bool) {
+	w.showForm("Check limits", "Apply", f.items, func(ok bool) {
 		if !ok {
 			return
 		}
@@ -225,7 +225,7 @@ func (w *Window) showCheckLimits() {
 			return
 		}
 		w.setCheckLimits(n, sf)
-	}, w.win)
+	})
 }
 
 // checkLimitsForm is the content of the Check limits dialog: the span/n of

@@ -105,7 +105,7 @@ func (r *readout) showEnvelope(w *Window, x float64) bool {
 	for _, q := range fem.Quantities() {
 		unit := q.Info().Unit
 		value := func(f fem.Fields) string { return shortNumber(w.units.ToDisplay(unit, q.Of(&f))) }
-		lo, hi := quantityRow(w.units, q, " min"), quantityRow(w.units, q, " max")
+		lo, hi := quantityRow(w.units, q, envelopeMin), quantityRow(w.units, q, envelopeMax)
 		lo[columnExact], hi[columnExact] = "—", "—"
 		if exact {
 			lo[columnExact], hi[columnExact] = value(ex.Lo), value(ex.Hi)
@@ -265,12 +265,12 @@ func (w *Window) addCase() {
 	m := w.canonicalModel()
 	entry := widget.NewEntry()
 	entry.SetText(fmt.Sprintf("case %d", m.LoadSetCount()+min(len(m.Cases), 1)))
-	dialog.ShowForm("Add a load case", "Add", "Cancel", []*widget.FormItem{widget.NewFormItem("Name", entry)}, func(ok bool) {
+	w.showForm("Add a load case", "Add", []*widget.FormItem{widget.NewFormItem("Name", entry)}, func(ok bool) {
 		if !ok {
 			return
 		}
 		w.addCaseNamed(strings.TrimSpace(entry.Text))
-	}, w.win)
+	})
 }
 
 // addCaseNamed adds an empty case named name and edits it.
@@ -314,7 +314,7 @@ func (w *Window) renameCase() {
 	k := w.editCase
 	entry := widget.NewEntry()
 	entry.SetText(m.Cases[k].Name)
-	dialog.ShowForm("Rename the load case", "Rename", "Cancel", []*widget.FormItem{widget.NewFormItem("Name", entry)}, func(ok bool) {
+	w.showForm("Rename the load case", "Rename", []*widget.FormItem{widget.NewFormItem("Name", entry)}, func(ok bool) {
 		if ok {
 			name := strings.TrimSpace(entry.Text)
 			w.changeCases("rename load case "+m.Cases[k].Name+" to "+name, k, func(m *fem.Model) error {
@@ -322,7 +322,7 @@ func (w *Window) renameCase() {
 				return nil
 			})
 		}
-	}, w.win)
+	})
 }
 
 // deleteCase deletes the case edited, with its loads, and its factors

@@ -193,7 +193,7 @@ func (w *Window) ask(title string, content fyne.CanvasObject, choices ...choice)
 	d := dialog.NewCustomWithoutButtons(title, content, w.win)
 	buttons := make([]fyne.CanvasObject, len(choices))
 	for i, c := range choices {
-		b := widget.NewButton(c.label, func() {
+		b := newRingButton(c.label, func() {
 			d.Hide()
 			c.run()
 		})

@@ -13,6 +13,7 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
+	"stave/fem"
 	"stave/fem/moving"
 )
 
@@ -66,8 +67,15 @@ func focusButton(t *testing.T, c fyne.Canvas, text string) {
 	c.Unfocus()
 	for range 500 {
 		c.FocusNext()
-		if b, ok := c.Focused().(*widget.Button); ok && b.Text == text {
-			return
+		switch b := c.Focused().(type) {
+		case *widget.Button:
+			if b.Text == text {
+				return
+			}
+		case *ringButton:
+			if b.Text == text {
+				return
+			}
 		}
 	}
 	t.Fatalf("Tab never reaches the button %q", text)
@@ -254,4 +262,46 @@ func over(a, b color.Color) color.Color {
 	br, bg, bb, _ := b.RGBA()
 	mix := func(x, y uint32) uint8 { return uint8((x + y*(0xffff-aa)/0xffff) >> 8) }
 	return color.NRGBA{R: mix(ar, br), G: mix(ag, bg), B: mix(ab, bb), A: 0xff}
+}
+
+// The strong buttons of the window's own dialogs (Add, Fill, Keep these
+// notes, Save, Discard changes) show the focus with the ring, as Apply and
+// the tools do: fyne's focus shading does not show on a blue or red
+// button, so Tab reached them unseen.
+func TestDialogsStrongButtonsShowTheFocus(t *testing.T) {
+	dialogs := []struct {
+		name string
+		show func(w *Window)
+	}{
+		{"the Add form", func(w *Window) { w.showAddForm() }},
+		{"the section calculator", func(w *Window) { w.showSectionCalculator() }},
+		{"the typical materials", func(w *Window) { w.showMaterials() }},
+		{"the notes", func(w *Window) { w.showNotesForm() }},
+		{"unsaved changes", func(w *Window) {
+			w.apply("move the load", func(m *fem.Model) error { m.PointLoads[0].X += 0.5; return nil })
+			w.newProject()
+		}},
+	}
+	for _, d := range dialogs {
+		w, _ := newTestWindow(t, demoProject(t))
+		d.show(w)
+		top := w.win.Canvas().Overlays().Top()
+		if top == nil {
+			t.Fatalf("%s: no dialog showing", d.name)
+		}
+		strong := 0
+		for _, o := range test.LaidOutObjects(top) {
+			switch b := o.(type) {
+			case *ringButton:
+				strong++
+			case *widget.Button:
+				if b.Importance == widget.HighImportance || b.Importance == widget.DangerImportance {
+					t.Errorf("%s: the button %q shows no ring in focus", d.name, b.Text)
+				}
+			}
+		}
+		if strong == 0 {
+			t.Errorf("%s: no button with a focus ring", d.name)
+		}
+	}
 }

@@ -7,7 +7,9 @@ import (
 	"strings"
 
 	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/driver/desktop"
+	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
 	"stave/fem"
@@ -59,6 +61,28 @@ func (w *Window) guarded(f func()) func() {
 			f()
 		}
 	}
+}
+
+// showForm shows a dialog of a few fields, as dialog.NewForm makes it,
+// with the focus in its first field; Enter in any field confirms it, as
+// the confirm button does (done then gets true), as Enter does in the Add
+// form and the properties.
+func (w *Window) showForm(title, confirm string, items []*widget.FormItem, done func(bool)) *dialog.FormDialog {
+	d := dialog.NewForm(title, confirm, "Cancel", items, done, w.win)
+	var first *widget.Entry
+	for _, it := range items {
+		if e, ok := it.Widget.(*widget.Entry); ok {
+			e.OnSubmitted = func(string) { d.Submit() }
+			if first == nil {
+				first = e
+			}
+		}
+	}
+	d.Show()
+	if first != nil {
+		w.win.Canvas().Focus(first)
+	}
+	return d
 }
 
 // item is a menu item that runs run while no dialog is open, with its key shown.

@@ -12,6 +12,7 @@ import (
 	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/driver/desktop"
 	"fyne.io/fyne/v2/test"
+	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
 	"stave/fem"
@@ -439,5 +440,42 @@ func TestEscapeFromPropertiesToDrawing(t *testing.T) {
 	typeToFocused(t, w, fyne.KeyRight)
 	if w.selected == was {
 		t.Errorf("Right on the drawing after Escape kept the selection %v", was)
+	}
+}
+
+// A dialog that asks for a few values opens with the focus in its first
+// field, and Enter there confirms it, as its confirm button does, as Enter
+// does in the Add form and the properties: the focus was nowhere and Enter
+// did nothing, so the keyboard reached the confirm button only by Tab and
+// Space.
+func TestFormDialogsByKeyboard(t *testing.T) {
+	dialogs := []struct {
+		name string
+		show func(w *Window)
+		done func(w *Window) bool // what the confirm button does, done
+	}{
+		{"add a load case", func(w *Window) { w.addCase() }, func(w *Window) bool { return len(w.canonicalModel().Cases) == 4 }},
+		{"rename the load case", func(w *Window) { w.renameCase() }, func(w *Window) bool { return true }},
+		{"check limits", func(w *Window) { w.showCheckLimits() }, func(w *Window) bool { return true }},
+		{"adaptive refinement", func(w *Window) { w.runAdaptive() }, func(w *Window) bool { return w.study != 0 || w.adaptNodes != nil }},
+	}
+	for _, d := range dialogs {
+		w, q := openTestdata(t, "two_span_cases.json", laptop)
+		finished(t, w, q)
+		c := w.win.Canvas()
+		d.show(w)
+		if c.Overlays().Top() == nil {
+			t.Fatalf("%s: no dialog showing", d.name)
+		}
+		e, ok := c.Focused().(*widget.Entry)
+		if !ok {
+			t.Errorf("%s: the dialog opens with the focus on %T, want its first field", d.name, c.Focused())
+			continue
+		}
+		e.TypedKey(&fyne.KeyEvent{Name: fyne.KeyReturn})
+		if c.Overlays().Top() != nil || !d.done(w) {
+			t.Errorf("%s: Enter in the field left the dialog open (%v) or did not do what its button does", d.name, c.Overlays().Top() != nil)
+		}
+		w.cancelStudy()
 	}
 }

@@ -1,6 +1,7 @@
 package app
 
 import (
+	"fmt"
 	"path/filepath"
 	"strconv"
 	"testing"
@@ -95,8 +96,10 @@ func TestChoicesShowTheirWholeText(t *testing.T) {
 			for _, o := range s.Options {
 				// The room for the text: the select's width less its
 				// icon, the padding by the icon, and the label's inset
-				// each side (fyne's selectRenderer.Layout, v2.7).
-				room := s.Size().Width - theme.IconInlineSize() - theme.InnerPadding() - 3*theme.Padding()
+				// each side (fyne's selectRenderer.Layout, v2.7), in
+				// the theme the select is shown in.
+				size := func(n fyne.ThemeSizeName) float32 { return theme.SizeForWidget(n, s) }
+				room := s.Size().Width - size(theme.SizeNameInlineIcon) - size(theme.SizeNameInnerPadding) - 3*size(theme.SizeNamePadding)
 				if need := fyne.MeasureText(o, theme.TextSize(), fyne.TextStyle{}).Width; need > room+0.5 {
 					t.Errorf("%s: the choice of %q has %.0f px for its text, %q needs %.0f", name, s.Selected, room, o, need)
 				}
@@ -176,40 +179,27 @@ func TestTabFollowsTheScreen(t *testing.T) {
 	t.Fatal("Tab never came back to the first widget")
 }
 
-// On a laptop's screen the envelope's readout shows, without scrolling
-// sideways, every quantity's smallest and largest value, exact and FE side
-// by side with the unit: its FE column ran past the pane at 1280 px wide,
-// where the governing combinations' names widened the exact column. The
+// On a laptop's screen, 1280 or 1024 px wide, the readout shows without
+// scrolling sideways every quantity's value, exact and FE side by side
+// with the unit, and for the envelope its smallest and largest: its FE
+// column ran past the pane at 1280 px wide, where the governing
+// combinations' names widened the exact column, and at 1024 px the unit
+// column was out of sight for any model. The
 // values of the two equal spans (4 m, 10 kN/m on each or on one) are the
 // beam tables' (AISC Manual, "Beam Diagrams and Formulas", continuous
 // beam, two equal spans): over the middle support M = −wL²/8 = −20 kN·m
 // with both loaded, −wL²/16 = −10 kN·m with one.
 func TestEnvelopeReadoutFitsALaptopScreen(t *testing.T) {
+	for _, size := range []fyne.Size{smallLaptop, laptop} {
+		for _, name := range []string{"demo.json", "two_span_cases.json"} {
+			w, q := openTestdata(t, name, size)
+			finished(t, w, q)
+			readoutFits(t, w, q, fmt.Sprintf("%s at %.0f px wide", name, size.Width))
+		}
+	}
 	w, q := openTestdata(t, "two_span_cases.json", laptop)
 	finished(t, w, q)
 	r := w.ui.readout
-	for _, sys := range []units.System{units.SI, units.USCustomary} {
-		w.setUnits(sys)
-		finished(t, w, q)
-		for _, x := range []float64{0.3, 1.5, 2.9, 4, 5.71, 7.6} {
-			w.draw.hovering, w.draw.hoverX = true, x
-			w.hoverChanged()
-			var used float32
-			for c := columnQuantity; c <= columnUnit; c++ {
-				used += r.widths[c]
-			}
-			if room := r.table.Size().Width; used > room+0.5 {
-				t.Errorf("%s, x = %g m: the quantity, exact, FE and unit columns need %.0f px, the readout is %.0f wide", sys.Name, x, used, room)
-			}
-			for _, row := range r.rows {
-				for c, text := range row {
-					if need := fyne.MeasureText(text, readoutTextSize(), fyne.TextStyle{}).Width; need > r.widths[c] {
-						t.Errorf("%s, x = %g m: column %d is %.0f wide for %q, which needs %.0f", sys.Name, x, c, r.widths[c], text, need)
-					}
-				}
-			}
-		}
-	}
 	// Over the middle support, in SI: the smallest moment is the one of
 	// both spans loaded, and the largest no more than one span's.
 	w.setUnits(units.SI)
@@ -225,6 +215,36 @@ func TestEnvelopeReadoutFitsALaptopScreen(t *testing.T) {
 	}
 }
 
+// readoutFits checks, in both unit systems and at points along the member,
+// that the readout of w shows its quantity, exact, FE and unit columns
+// whole and each text in its column.
+func readoutFits(t *testing.T, w *Window, q *uiQueue, where string) {
+	t.Helper()
+	r := w.ui.readout
+	for _, sys := range []units.System{units.SI, units.USCustomary} {
+		w.setUnits(sys)
+		finished(t, w, q)
+		for _, x := range []float64{0.3, 1.5, 2.9, 4, 5.71, 7.6} {
+			w.draw.hovering, w.draw.hoverX = true, x
+			w.hoverChanged()
+			var used float32
+			for c := columnQuantity; c <= columnUnit; c++ {
+				used += r.widths[c]
+			}
+			if room := r.table.Size().Width; used > room+0.5 {
+				t.Errorf("%s, %s, x = %g m: the quantity, exact, FE and unit columns need %.0f px, the readout is %.0f wide", where, sys.Name, x, used, room)
+			}
+			for _, row := range r.rows {
+				for c, text := range row {
+					if need := fyne.MeasureText(text, readoutTextSize(), fyne.TextStyle{}).Width; need > r.widths[c] {
+						t.Errorf("%s, %s, x = %g m: column %d is %.0f wide for %q, which needs %.0f", where, sys.Name, x, c, r.widths[c], text, need)
+					}
+				}
+			}
+		}
+	}
+}
+
 // envelopeRows are the readout's rows of q's smallest and largest value.
 func envelopeRows(t *testing.T, r *readout, q fem.Quantity) (lo, hi [readoutColumns]string) {
 	t.Helper()
@@ -232,4 +252,22 @@ func envelopeRows(t *testing.T, r *readout, q fem.Quantity) (lo, hi [readoutColu
 		t.Fatalf("the envelope's readout has %d rows, want two per quantity", len(r.rows))
 	}
 	return r.rows[2*int(q)], r.rows[2*int(q)+1]
+}
+
+// smallLaptop is the content of a window filling a screen of 1024 × 640
+// pixels under its menu bar.
+var smallLaptop = fyne.NewSize(1024, 610)
+
+// The window fits a screen of 1024 × 640 with the caution line at its foot
+// in sight: there the bars above and below the drawing wrap into more
+// rows, and with fyne's padding they and the drawing asked for 659 px, so
+// the window grew past the screen's foot and the caution with it.
+func TestWindowFitsASmallLaptop(t *testing.T) {
+	for _, name := range []string{"demo.json", "two_span_cases.json", "moving/runway.json"} {
+		w, _ := openTestdata(t, name, smallLaptop)
+		if need := w.win.Content().MinSize(); need.Height > smallLaptop.Height || need.Width > smallLaptop.Width {
+			t.Errorf("%s: the window needs %.0f × %.0f px, the screen has %.0f × %.0f under the menu bar",
+				name, need.Width, need.Height, smallLaptop.Width, smallLaptop.Height)
+		}
+	}
 }

@@ -106,7 +106,7 @@ func (f *notesForm) notes(p storage.Project) (storage.Notes, bool) {
 func (w *Window) showNotesForm() {
 	f := newNotesForm(w.project.Notes)
 	var d *dialog.CustomDialog
-	save := widget.NewButton("Keep these notes", func() {
+	save := newRingButton("Keep these notes", func() {
 		n, ok := f.notes(cloneProject(w.project))
 		if !ok {
 			return

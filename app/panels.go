@@ -105,8 +105,12 @@ func (w *Window) build() {
 	side := container.NewVSplit(c.properties, readoutAndChecks)
 	side.SetOffset(0.38)
 
-	below := newFlow(append(c.layerBar(), c.meshBar()...)...)
-	bar := c.actionBar()
+	// The bars above and below the drawing have the strip's compact
+	// padding: with fyne's, a window 1024 px wide, where they wrap into
+	// more rows, needed 659 px of height for 610 on a 1024 × 640 screen,
+	// and grew past its foot, the caution line with it.
+	below := compact(newFlow(append(c.layerBar(), c.meshBar()...)...))
+	bar := compact(c.actionBar())
 	// The objects in the order they are on the screen, which is the
 	// order Tab takes (a border container puts its middle first).
 	center := container.New(layout.NewBorderLayout(bar, below, nil, nil), bar, w.draw, below)
@@ -210,9 +214,21 @@ func orderOf(ms fem.MeshSettings) fem.ElementOrder {
 	return ms.BarOrder
 }
 
-// fixedWidth gives o a width of px and its own height.
+// fixedWidth gives o a width of px and its own height, as the theme it is
+// shown in makes it.
 func fixedWidth(px float32, o fyne.CanvasObject) fyne.CanvasObject {
-	return container.NewGridWrap(fyne.NewSize(px, o.MinSize().Height), o)
+	return container.New(widthLayout(px), o)
+}
+
+// widthLayout lays its one object out px wide at its own height.
+type widthLayout float32
+
+func (l widthLayout) MinSize(objects []fyne.CanvasObject) fyne.Size {
+	return fyne.NewSize(float32(l), objects[0].MinSize().Height)
+}
+
+func (l widthLayout) Layout(objects []fyne.CanvasObject, size fyne.Size) {
+	objects[0].Resize(size)
 }
 
 // layerBar makes the overlay switches and the deflection scale shown below the drawing.

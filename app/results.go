@@ -27,8 +27,9 @@ type readout struct {
 	rows  [][readoutColumns]string
 	// columns is the number shown: the governing column is an envelope's.
 	columns int
-	// least are the columns' widths for plain numbers; widths those set
-	// now, wider where a row's text needs it (the envelope's ranges).
+	// least are the columns' widths for every quantity's name, plain
+	// numbers and units; widths those set now, wider where a row's text
+	// needs it (a combination's name).
 	least, widths [readoutColumns]float32
 }
 
@@ -40,6 +41,12 @@ const (
 	columnUnit
 	columnGoverning // an envelope's: the combination that gives the value
 	readoutColumns
+)
+
+// The envelope's rows name their quantity with these after it.
+const (
+	envelopeMin = " min"
+	envelopeMax = " max"
 )
 
 var readoutHeadings = [readoutColumns]string{"", "exact", "FE", "unit", "governing"}
@@ -68,7 +75,9 @@ func newReadout() *readout {
 	}
 	widths := [readoutColumns]float32{columnGoverning: fyne.MeasureText(readoutHeadings[columnGoverning], size, fyne.TextStyle{Bold: true}).Width}
 	for _, q := range fem.Quantities() {
-		widths[columnQuantity] = max(widths[columnQuantity], fyne.MeasureText(q.Info().Label, size, fyne.TextStyle{}).Width)
+		for _, suffix := range []string{envelopeMin, envelopeMax} {
+			widths[columnQuantity] = max(widths[columnQuantity], fyne.MeasureText(q.Info().Label+suffix, size, fyne.TextStyle{}).Width)
+		}
 		for _, s := range units.Systems() {
 			widths[columnUnit] = max(widths[columnUnit], fyne.MeasureText(s.Unit(q.Info().Unit).Symbol, size, fyne.TextStyle{}).Width)
 		}
@@ -99,9 +108,30 @@ func setCell(o fyne.CanvasObject, text string, number, bold bool) {
 	t.Refresh()
 }
 
-// pane is the readout with its line on where it reads.
+// pane is the readout with its line on where it reads, at least as wide
+// as the quantity, exact, FE and unit columns: the window's panes leave it
+// room for them, where it scrolled the units out of sight in a window
+// 1024 px wide.
 func (r *readout) pane() fyne.CanvasObject {
-	return container.NewBorder(r.at, nil, nil, nil, r.table)
+	return container.New(readoutLayout{r}, container.NewBorder(r.at, nil, nil, nil, r.table))
+}
+
+// readoutLayout lays the readout out at least as wide as its least
+// columns up to the unit, which hold every quantity's name, also an
+// envelope's, every number and every unit.
+type readoutLayout struct{ r *readout }
+
+func (l readoutLayout) MinSize(objects []fyne.CanvasObject) fyne.Size {
+	size := objects[0].MinSize()
+	var columns float32
+	for c := columnQuantity; c <= columnUnit; c++ {
+		columns += l.r.least[c]
+	}
+	return fyne.NewSize(max(size.Width, columns), size.Height)
+}
+
+func (l readoutLayout) Layout(objects []fyne.CanvasObject, size fyne.Size) {
+	objects[0].Resize(size)
 }
 
 // clear shows the quantities with no values and says how to get them.

@@ -14,6 +14,7 @@ import (
 	fynecanvas "fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/dialog"
+	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas/report"
@@ -124,9 +125,11 @@ func (w *Window) showConvergence() {
 	}
 	table := widget.NewTextGrid()
 	table.SetText(w.convergenceText())
-	left := container.NewVBox(table)
+	// The table scrolls in its pane: its lines, wider than the room the
+	// chart leaves, ran on under the chart.
+	var left fyne.CanvasObject = container.NewScroll(table)
 	if !reflect.DeepEqual(c.model, w.project.Model) {
-		left.Add(wrapped("The model has changed since this study: run it again to see the current one."))
+		left = container.NewBorder(nil, wrapped("The model has changed since this study: run it again to see the current one."), nil, nil, left)
 	}
 	var right fyne.CanvasObject
 	var chart bytes.Buffer
@@ -152,7 +155,7 @@ func (w *Window) showConvergence() {
 func (w *Window) runAdaptive() {
 	target := widget.NewEntry()
 	target.SetText("1 %")
-	form := dialog.NewForm("Adaptive refinement", "Refine", "Cancel",
+	form := w.showForm("Adaptive refinement", "Refine",
 		[]*widget.FormItem{widget.NewFormItem("Target error (energy norm)", target)},
 		func(ok bool) {
 			if !ok {
@@ -164,9 +167,8 @@ func (w *Window) runAdaptive() {
 				return
 			}
 			w.startAdaptive(t)
-		}, w.win)
+		})
 	form.Resize(fyne.NewSize(460, 180))
-	form.Show()
 }
 
 // startAdaptive refines towards target in the background.
@@ -214,9 +216,16 @@ func (w *Window) adaptiveDone(m fem.Model, target float64, v study.Versus, err e
 	grid := widget.NewTextGrid()
 	grid.SetText(text)
 	d := dialog.NewCustom("Adaptive refinement", "Close", container.NewScroll(grid), w.win)
-	d.Resize(fyne.NewSize(760, 480))
+	// As wide as the table's widest line, as far as the window allows:
+	// at 760 px the comparison with uniform refinement ran out of sight.
+	d.Resize(fyne.NewSize(min(grid.MinSize().Width+dialogPadWidth+theme.InnerPadding(), w.win.Canvas().Size().Width), 480))
 	d.Show()
 }
+
+// dialogPadWidth is the width, px, a dialog takes beside its content, to
+// which its pop-up adds the theme's inner padding (fyne's dialog padWidth
+// and popUpBaseRenderer.padding, v2.7).
+const dialogPadWidth = 32
 
 // adaptiveText tabulates the iterations and the comparison with uniform
 // refinement, as the command line prints them, under the target.

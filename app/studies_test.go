@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/test"
 	"fyne.io/fyne/v2/widget"
 
@@ -90,6 +91,8 @@ func dialogWidgets(t *testing.T, w *Window) (selects []*widget.Select, entries [
 			entries = append(entries, v)
 		case *widget.Button:
 			buttons = append(buttons, v)
+		case *ringButton:
+			buttons = append(buttons, &v.Button)
 		case *widget.Label:
 			labels = append(labels, v)
 		}
@@ -171,5 +174,63 @@ func TestCheckLimitsOfferTypicalValues(t *testing.T) {
 	}
 	if f.factor.Text != units.FormatNumber(v.SafetyFactor) {
 		t.Errorf("safety factor field %q, want the project's %g", f.factor.Text, v.SafetyFactor)
+	}
+}
+
+// The tables of the studies draw within their panes, on a laptop's screen
+// and a small one: the convergence table ran on under its chart, which hid
+// its last columns and the ends of its lines, and the adaptive
+// refinement's widest line ended behind its pane's edge.
+func TestStudyTablesDrawInTheirPanes(t *testing.T) {
+	for _, size := range []fyne.Size{smallLaptop, laptop} {
+		w, q := openTestdata(t, "demo.json", size)
+		solved(t, w, q)
+		w.runConvergence()
+		q.waitFor(t, "the convergence study", func() bool { return w.convergence != nil })
+		textGridsFit(t, w, fmt.Sprintf("convergence study at %.0f px", size.Width), false)
+		w.win.Canvas().Overlays().Remove(w.win.Canvas().Overlays().Top())
+		w.startAdaptive(0.01)
+		q.waitFor(t, "the adaptive refinement", func() bool { return w.adaptNodes != nil })
+		textGridsFit(t, w, fmt.Sprintf("adaptive refinement at %.0f px", size.Width), size == laptop)
+	}
+}
+
+// textGridsFit checks that each text grid of the dialog on top of w is
+// laid out at least at its own size, so it draws within its bounds, in a
+// pane that scrolls when it is smaller; with whole, the pane shows its
+// every column.
+func textGridsFit(t *testing.T, w *Window, what string, whole bool) {
+	t.Helper()
+	top := w.win.Canvas().Overlays().Top()
+	if top == nil {
+		t.Fatalf("%s: no dialog showing", what)
+	}
+	scrolls := map[fyne.CanvasObject]*container.Scroll{}
+	grids := 0
+	for _, o := range test.LaidOutObjects(top) {
+		if s, ok := o.(*container.Scroll); ok {
+			for _, in := range test.LaidOutObjects(s.Content) {
+				scrolls[in] = s
+			}
+		}
+		g, ok := o.(*widget.TextGrid)
+		if !ok {
+			continue
+		}
+		grids++
+		if need := g.MinSize().Width; g.Size().Width < need-0.5 {
+			t.Errorf("%s: the table is laid out %.0f px wide and draws %.0f, over what is beside it", what, g.Size().Width, need)
+		}
+		s := scrolls[g]
+		if s == nil {
+			t.Errorf("%s: the table is in no scrolling pane", what)
+			continue
+		}
+		if whole && s.Size().Width < g.MinSize().Width-0.5 {
+			t.Errorf("%s: the pane shows %.0f px of the table's %.0f", what, s.Size().Width, g.MinSize().Width)
+		}
+	}
+	if grids == 0 {
+		t.Errorf("%s: no table in the dialog", what)
 	}
 }

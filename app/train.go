@@ -47,9 +47,10 @@ type movingWindow struct {
 	axleRows    []axleRow
 	formScroll  *container.Scroll // holds the form: laid out again when rows change
 	uniform     [3]*widget.Entry  // load, start, length
-	// The labels that name units: the axle table's heading and the
-	// uniform load's (showUnits).
-	axlesHeading, uniformLoad *widget.Label
+	// The labels that name units: the axle table's heading and each
+	// number's (showUnits).
+	axlesHeading *widget.Label
+	unitLabels   []unitLabel
 	// shown holds the numbers the form wrote, so a field left as it was
 	// reads back the train's own value, not its four figures.
 	shown map[*widget.Entry]shownNumber
@@ -156,18 +157,18 @@ func (mw *movingWindow) build() {
 	form := container.New(layout.NewFormLayout(),
 		widget.NewLabel("Name"), mw.name,
 		widget.NewLabel("Moves"), mw.direction,
-		widget.NewLabel("From x"), mw.from,
-		widget.NewLabel("To x"), mw.to,
+		mw.unitLabel("From x", units.Position), mw.from,
+		mw.unitLabel("To x", units.Position), mw.to,
 		widget.NewLabel(""), mw.offEnds,
-		widget.NewLabel("Step"), mw.step,
+		mw.unitLabel("Step", units.Position), mw.step,
 	)
-	mw.axlesHeading, mw.uniformLoad = heading(""), widget.NewLabel("")
-	mw.showUnits()
+	mw.axlesHeading = heading("")
 	uniform := container.New(layout.NewFormLayout(),
-		mw.uniformLoad, mw.uniform[0],
-		widget.NewLabel("Behind the front"), mw.uniform[1],
-		widget.NewLabel("Length"), mw.uniform[2],
+		mw.unitLabel("Load", units.LineLoad), mw.uniform[0],
+		mw.unitLabel("Behind the front", units.Position), mw.uniform[1],
+		mw.unitLabel("Length", units.Position), mw.uniform[2],
 	)
+	mw.showUnits()
 	left := container.NewVBox(
 		heading("Train"),
 		container.NewBorder(nil, nil, nil, container.NewHBox(
@@ -226,11 +227,28 @@ func (mw *movingWindow) build() {
 	mw.win.SetContent(container.NewBorder(nil, container.NewVBox(widget.NewSeparator(), mw.status, warning), nil, nil, split))
 }
 
+// unitLabel is the label of a number of kind k in the form, named and
+// given its unit by showUnits.
+type unitLabel struct {
+	label *widget.Label
+	name  string
+	kind  units.Kind
+}
+
+// unitLabel makes the label name of a number of kind k, its unit to be shown.
+func (mw *movingWindow) unitLabel(name string, k units.Kind) *widget.Label {
+	l := widget.NewLabel(name)
+	mw.unitLabels = append(mw.unitLabels, unitLabel{l, name, k})
+	return l
+}
+
 // showUnits names the window's units in the labels that say them.
 func (mw *movingWindow) showUnits() {
 	u := mw.w.units
 	mw.axlesHeading.SetText(fmt.Sprintf("Axles, front first (load in %s, spacing from the axle before in %s)", u.Unit(units.Force).Symbol, u.Unit(units.Position).Symbol))
-	mw.uniformLoad.SetText("Load (" + u.Unit(units.LineLoad).Symbol + ")")
+	for _, l := range mw.unitLabels {
+		l.label.SetText(l.name + " (" + u.Unit(l.kind).Symbol + ")")
+	}
 }
 
 // unitsChanged shows the train in the window's new units: the numbers of

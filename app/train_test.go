@@ -414,3 +414,34 @@ func TestMovingWindowShowsACombinationWithItsTrain(t *testing.T) {
 		t.Error("back to the train alone, the window does not show its own envelope and field")
 	}
 }
+
+// Every number of the train's form says its unit, in the window's units:
+// From x, To x and Step read as bare numbers ("0", "0.05000") with no unit
+// anywhere near them, where the axles' heading and the uniform load named
+// theirs.
+func TestTrainFormNamesItsUnits(t *testing.T) {
+	w, q, mw := runwayWindow(t)
+	fields := []struct {
+		label string
+		kind  units.Kind
+	}{
+		{"From x", units.Position}, {"To x", units.Position}, {"Step", units.Position},
+		{"Load", units.LineLoad}, {"Behind the front", units.Position}, {"Length", units.Position},
+	}
+	for _, sys := range []units.System{units.SI, units.USCustomary} {
+		w.setUnits(sys)
+		finished(t, w, q)
+		var texts []string
+		for _, o := range test.LaidOutObjects(mw.win.Content()) {
+			if l, ok := o.(*widget.Label); ok {
+				texts = append(texts, l.Text)
+			}
+		}
+		for _, f := range fields {
+			want := f.label + " (" + sys.Unit(f.kind).Symbol + ")"
+			if !slices.Contains(texts, want) {
+				t.Errorf("%s units: no label %q in the train's form", sys.Name, want)
+			}
+		}
+	}
+}

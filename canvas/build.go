@@ -378,9 +378,8 @@ func (b *builder) arrow(tail, tip Point, c color.NRGBA, width, head float32) {
 	b.polygon(c, color.NRGBA{}, 0, tip, Point{base.X - uy*half, base.Y + ux*half}, Point{base.X + uy*half, base.Y - ux*half})
 }
 
-// format writes an SI value in the chosen unit system; a unit that starts
-// with a power of ten gets its multiplication sign: "80.00 × 10⁶ mm⁴", not
-// "80.00 10⁶ mm⁴", which reads as 80.00106 or a product of two numbers.
+// format writes an SI value in the chosen unit system, to be read
+// (units.System.Show: "80.00 × 10⁶ mm⁴", not "80.00 10⁶ mm⁴").
 //
 // Each value is written once per drawing and unit system, and kept in the
 // Cache for the next drawing: a drag step writes the forces of 1,000 loads
@@ -390,10 +389,7 @@ func (b *builder) format(q units.Kind, v float64) string {
 	if s, ok := b.formats[k]; ok {
 		return s
 	}
-	s, sym := b.u.Format(q, v), b.u.Unit(q).Symbol
-	if strings.HasPrefix(sym, "10") && strings.HasSuffix(s, " "+sym) {
-		s = strings.TrimSuffix(s, sym) + "× " + sym
-	}
+	s := b.u.Show(q, v)
 	if b.formats == nil {
 		b.formats = map[formatKey]string{}
 	}

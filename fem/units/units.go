@@ -274,6 +274,18 @@ func (s System) FormatFigures(q Kind, vSI float64, figures int) string {
 	return FormatNumberFigures(s.ToDisplay(q, vSI), figures) + " " + s.Unit(q).Symbol
 }
 
+// Show is Format for reading, not typing: a unit that starts with a power
+// of ten gets its multiplication sign, "80.00 × 10⁶ mm⁴" and not
+// "80.00 10⁶ mm⁴", which reads as 80.00106 or a product of two numbers.
+// Parse reads Format's spelling, which a field shows.
+func (s System) Show(q Kind, vSI float64) string {
+	f, sym := s.Format(q, vSI), s.Unit(q).Symbol
+	if strings.HasPrefix(sym, "10") && strings.HasSuffix(f, " "+sym) {
+		return strings.TrimSuffix(f, sym) + "× " + sym
+	}
+	return f
+}
+
 // Count is n of a noun, its plural with an s: "1 element", "2 elements".
 func Count(n int, noun string) string {
 	if n == 1 {

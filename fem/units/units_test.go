@@ -197,6 +197,29 @@ func TestFormat(t *testing.T) {
 	}
 }
 
+// Show writes a power of ten in a unit with its multiplication sign, and
+// leaves every other value as Format writes it. 83.56e-6 m⁴ is 83.56 × 10⁶
+// mm⁴ and 1.5e-3 m³ is 1500 × 10³ mm³ (powers of ten; from memory).
+func TestShow(t *testing.T) {
+	cases := []struct {
+		s    System
+		q    Kind
+		vSI  float64
+		want string
+	}{
+		{SI, SecondMoment, 83.56e-6, "83.56 × 10⁶ mm⁴"},
+		{SI, SectionModulus, 1.5e-3, "1500 × 10³ mm³"},
+		{SI, Moment, -12500, "-12.50 kN·m"},
+		// in⁴ has no power of ten: as Format writes it.
+		{USCustomary, SecondMoment, 0.0001, USCustomary.Format(SecondMoment, 0.0001)},
+	}
+	for _, c := range cases {
+		if got := c.s.Show(c.q, c.vSI); got != c.want {
+			t.Errorf("%s Show(%s, %g) = %q, want %q", c.s.Name, c.q, c.vSI, got, c.want)
+		}
+	}
+}
+
 func TestParse(t *testing.T) {
 	cases := []struct {
 		s    System
