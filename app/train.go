@@ -218,7 +218,7 @@ func (mw *movingWindow) build() {
 	top := newFlow(widget.NewLabel("Field"), wide(mw.quantity, 190), widget.NewLabel("Envelope of"), wide(mw.withSelect, 300),
 		widget.NewLabel("Influence line of"), wide(mw.targetSelect, 380),
 		container.NewHBox(widget.NewLabel("at x"), wide(mw.point, 150)), widget.NewButton("Worst position", mw.toWorst))
-	hint := widget.NewLabel("Drag the train along the member (or ← and → after a click or Tab on the picture); the influence line follows the mouse, a click pins it to a point (click again to let go), or type the point's x and press Enter.")
+	hint := widget.NewLabel("Drag the train, or ← → on the picture (Tab to it); a click pins the influence line, another frees it.")
 	hint.Wrapping = fyne.TextWrapWord
 	center := container.NewBorder(top, container.NewVBox(mw.readout, hint), nil, nil, mw.pic)
 	mw.formScroll = container.NewVScroll(left)
@@ -850,7 +850,9 @@ func newMovingPicture(mw *movingWindow) *movingPicture {
 
 func (p *movingPicture) CreateRenderer() fyne.WidgetRenderer { return &movingRenderer{p: p} }
 
-func (p *movingPicture) MinSize() fyne.Size { return fyne.NewSize(400, 300) }
+// MinSize leaves room for the readout, the status and the caution under
+// the picture on a screen of 1024 × 640.
+func (p *movingPicture) MinSize() fyne.Size { return fyne.NewSize(400, 240) }
 
 // modelX is the member x under the screen x px, as the scene places it.
 func (p *movingPicture) modelX(px float32) float64 {
