@@ -179,6 +179,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 		out.Envelope.Quantities = append(out.Envelope.Quantities, QuantityEnvelope{Quantity: q.Quantity, Name: q.Quantity.Key(), Unit: q.Quantity.Info().SI,
 			Max: governingJSON(m, c.Combinations, q.Max), Min: governingJSON(m, c.Combinations, q.Min)})
 	}
+	out.Envelope.Reactions = []ReactionEnvelopeJS{} // a list even without supports (docs/json.md)
 	for _, r := range env.Reactions {
 		sup := m.Supports[r.Support]
 		rj := ReactionEnvelopeJS{Support: r.Support + 1, Kind: sup.Kind.String(), X: r.X,

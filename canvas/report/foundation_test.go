@@ -280,3 +280,42 @@ func TestCasesReportTheGround(t *testing.T) {
 		t.Errorf("the sheet's case lines do not give the ground's envelope:\n%s", all)
 	}
 }
+
+// A ground beam that no support holds still has the envelope's reactions
+// as a list: docs/json.md promises that lists are always lists, empty when
+// there is nothing to list.
+func TestEnvelopeOfNoSupportsIsAnEmptyList(t *testing.T) {
+	const L = 10.0 // m
+	p := groundProject(L, 2e8, 2e7, fem.MeshSettings{Elements: 20})
+	p.Model.Supports = nil
+	p.Model.Cases = []fem.LoadCase{
+		{Name: "permanent", DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: L, Intensity: -10e3}}}}},
+		{Name: "imposed", PointLoads: []fem.PointLoad{{X: 3, Transverse: -50e3}}},
+	}
+	src, err := Analyse(context.Background(), p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var js bytes.Buffer
+	if err := WriteSolveJSON(&js, "model.json", src); err != nil {
+		t.Fatal(err)
+	}
+	var doc struct {
+		Reactions json.RawMessage
+		Envelope  struct{ Reactions, Foundations json.RawMessage }
+	}
+	if err := json.Unmarshal(js.Bytes(), &doc); err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		key string
+		got json.RawMessage
+	}{{"reactions", doc.Reactions}, {"envelope.reactions", doc.Envelope.Reactions}} {
+		if string(c.got) != "[]" {
+			t.Errorf("%s is %s, want [] (no supports)", c.key, c.got)
+		}
+	}
+	if len(doc.Envelope.Foundations) < 2 || doc.Envelope.Foundations[0] != '[' {
+		t.Errorf("envelope.foundations is %s, want a list of one foundation", doc.Envelope.Foundations)
+	}
+}

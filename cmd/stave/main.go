@@ -99,18 +99,20 @@ const usage = `usage:
   stave [FILE]                         open the window (on the demo model without FILE)
   stave solve [--json] [--units SI|US] [--show NAME] FILE
   stave export FILE --out NAME.png|NAME.svg|NAME.pdf|NAME.csv [--sheet | --multiples]
-               [--elements N] [--dpi N] [--points N] [--units SI|US] [--show NAME]
+               [--elements N] [--dpi N] [--width W] [--height H] [--points N]
+               [--units SI|US] [--show NAME]
   stave converge [--json] [--max N] [--target E] [--units SI|US] FILE
   stave influence FILE --quantity Q [--at X] [--side left|right] [--support N]
                [--motion M] [--points N] [--envelope] [--json] [--units SI|US]
+               [--out NAME.png|NAME.svg|NAME.pdf] [--sheet NAME.pdf|NAME.png] [--train N]
   stave check [--json | --csv] [--workers N] [--units SI|US] FILE... | DIR
-  stave bench [--json]
+  stave bench [--json] [--quick] [--pipeline]
   stave version
   stave COMMAND --help                 the flags of a command
 
 exit status: 0 solved, no check failed; 3 solved and written, but a check failed
-(the warnings say why); 1 model refused; 2 command line misused; check exits
-with its worst member's
+or the results are unreliable (the warnings say why); 1 model refused; 2 command
+line misused; check exits with its worst member's
 `
 
 // The calculation sheets and the solve text name the version, from the

@@ -862,3 +862,38 @@ func TestCommandHelp(t *testing.T) {
 		t.Errorf("the usage text lacks --target or the exit status:\n%s", out)
 	}
 }
+
+// The usage `stave --help` prints names every flag of every command, as
+// `stave COMMAND --help` lists them, so that the summary and the README,
+// which shows the same flags, agree with the commands.
+func TestUsageNamesEveryFlag(t *testing.T) {
+	flagLine := regexp.MustCompile(`^  -([a-z]+)`)
+	for _, cmd := range []string{"solve", "export", "converge", "influence", "check", "bench"} {
+		status, help, _ := runStave(t, cmd, "--help")
+		if status != 0 {
+			t.Fatalf("%s --help exits %d", cmd, status)
+		}
+		var summary strings.Builder // the usage's lines of cmd, with their continuations
+		in := false
+		for _, line := range strings.Split(usage, "\n") {
+			switch {
+			case strings.HasPrefix(line, "  stave "+cmd+" "):
+				in = true
+			case !strings.HasPrefix(line, "               "):
+				in = false
+			}
+			if in {
+				summary.WriteString(line + "\n")
+			}
+		}
+		if summary.Len() == 0 {
+			t.Errorf("the usage has no line for %s", cmd)
+			continue
+		}
+		for _, line := range strings.Split(help, "\n") {
+			if m := flagLine.FindStringSubmatch(line); m != nil && !strings.Contains(summary.String(), "--"+m[1]) {
+				t.Errorf("the usage of %s does not name --%s:\n%s", cmd, m[1], summary.String())
+			}
+		}
+	}
+}
