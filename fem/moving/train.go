@@ -379,6 +379,7 @@ type run struct {
 	candidates                           []float64
 	places                               []int
 	axleTerms, uniformTerms              []poly
+	short                                []bool
 	tolerance                            float64 // round-off within which a front that puts an axle on a point is on the run, m
 }
 
