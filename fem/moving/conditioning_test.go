@@ -2,6 +2,7 @@ package moving
 
 import (
 	"math"
+	"math/rand"
 	"testing"
 
 	"stave/fem"
@@ -84,5 +85,121 @@ func TestEnvelopeOfFarAxles(t *testing.T) {
 	}
 	if !near(lo.Value, want, 1e-9) || math.Abs(lo.X-L/2) > 1e-6 {
 		t.Errorf("smallest deflection %.12g m at x = %.9g, want %.12g m at %g (P·L³/48EI)", lo.Value, lo.X, want, L/2)
+	}
+}
+
+// On random members (spans of 1 mm to 1 km, supports bunched within 1e-5
+// of the member at midspan, fixed or rollers) under random trains (up to
+// 12 axles, spacings from 3e-4 of the span to 50 spans, driving off the
+// ends or not, with or without a uniform load), the worst effects at a
+// random point or support are never short of the effects at positions
+// checked one by one: 2,001 fronts along the run and every front that puts
+// an axle on a support, the point or an end, and a hair either side, each
+// summed from the influence line's ordinates (the definition of an
+// influence line, from memory). Summed about the member's origin, 2 of
+// about 2,000 cases fell short (a shear of 144 N for 3.9e-5 N aside, one
+// of −36,203 N for −36,326 N).
+func TestWorstNotShortOfPositionsOneByOne(t *testing.T) {
+	rng := rand.New(rand.NewSource(7))
+	checked := 0
+	for range 3000 {
+		L := []float64{1, 10, 1e-3, 1e3}[rng.Intn(4)]
+		sups := []fem.Support{{X: 0, Kind: fem.Pinned}}
+		at := map[float64]bool{0: true}
+		for range rng.Intn(4) {
+			x := L * rng.Float64()
+			if rng.Intn(3) == 0 {
+				x = L * (0.5 + 1e-5*rng.Float64())
+			}
+			if !at[x] {
+				at[x] = true
+				sups = append(sups, fem.Support{X: x, Kind: []fem.SupportKind{fem.Roller, fem.Fixed}[rng.Intn(2)]})
+			}
+		}
+		if !at[L] {
+			sups = append(sups, fem.Support{X: L, Kind: fem.Roller})
+		}
+		m := beam(L, sups...)
+		p, err := fem.Prepare(m)
+		if err != nil {
+			continue // supports closer than the merge tolerance
+		}
+		if _, err := fem.SolveExact(m); err != nil {
+			continue // beyond fem's exact solver, which the lines come from
+		}
+		in, err := New(p)
+		if err != nil {
+			t.Fatalf("supports %v: %v", sups, err)
+		}
+		tr := Train{Axles: []Axle{{Load: 1e4}}, OffEnds: rng.Intn(2) == 0}
+		for range rng.Intn(12) {
+			spacing := 0.3 * L * math.Pow(10, -3*rng.Float64())
+			if rng.Intn(4) == 0 {
+				spacing = 50 * L * rng.Float64()
+			}
+			tr.Axles = append(tr.Axles, Axle{Load: 1e4 * (0.5 + rng.Float64()), Spacing: spacing})
+		}
+		if rng.Intn(3) == 0 {
+			tr.Uniform = UniformLoad{Load: 1e3, Length: 0.3 * L}
+		}
+		if tr.Check(L, 0) != nil {
+			continue // a train too long for its run
+		}
+		x := L * rng.Float64()
+		if rng.Intn(2) == 0 {
+			x = sups[rng.Intn(len(sups))].X
+		}
+		tg := Target{Quantity: EnvelopeQuantities[rng.Intn(4)], X: x, Side: fem.Right}
+		hi, lo, err := in.Worst(&tr, p.Mesh(), tg)
+		if err != nil {
+			t.Fatalf("L = %g m, supports %v, %v: %v", L, sups, tg, err)
+		}
+		l := line(t, in, tg)
+		runs, err := tr.runs(L, p.Mesh())
+		if err != nil {
+			t.Fatal(err)
+		}
+		most, least, scale := math.Inf(-1), math.Inf(1), 0.0
+		keys := []float64{0, L, x}
+		for _, s := range sups {
+			keys = append(keys, s.X)
+		}
+		for _, r := range runs {
+			last := r.front(r.n - 1)
+			var fronts []float64
+			for k := range 2001 {
+				fronts = append(fronts, r.s0+(last-r.s0)*float64(k)/2000)
+			}
+			for _, a := range r.axles {
+				for _, k := range keys {
+					for _, d := range []float64{-1e-9 * L, 0, 1e-9 * L} {
+						if f := k - a.offset + d; f >= r.s0 && f <= last {
+							fronts = append(fronts, f)
+						}
+					}
+				}
+			}
+			for _, f := range fronts {
+				v := 0.0
+				for _, a := range r.axles {
+					if s := f + a.offset; s >= 0 && s <= L {
+						v += a.load * l.At(s, fem.Right)
+						scale = max(scale, math.Abs(a.load*l.At(s, fem.Right)))
+					}
+				}
+				if r.uniform {
+					v += r.q * l.Integral(min(max(f+r.u0, 0), L), min(max(f+r.u1, 0), L))
+				}
+				most, least = max(most, v), min(least, v)
+			}
+		}
+		checked++
+		if tol := 1e-6 * max(math.Abs(most), math.Abs(least), scale); !(hi.Value >= most-tol) || !(lo.Value <= least+tol) {
+			t.Errorf("L = %g m, supports %v, %d axles (off the ends %v, uniform %v), %v: worst %.9g and %.9g, positions one by one %.9g and %.9g",
+				L, sups, len(tr.Axles), tr.OffEnds, tr.Uniform.Load > 0, tg, hi.Value, lo.Value, most, least)
+		}
+	}
+	if checked < 1000 {
+		t.Errorf("only %d random cases checked", checked)
 	}
 }
