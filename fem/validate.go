@@ -882,12 +882,23 @@ func significantDigits(s string) int {
 // more, that tell them apart, so that a gap of 1e-9 m between 2 m and
 // 2.000000001 m shows.
 func fmtPair(a, b float64) (string, string) {
-	for digits := 6; ; digits++ {
-		sa, sb := fmtDigits(a, digits), fmtDigits(b, digits)
-		if sa != sb || a == b || digits >= 17 { // 17 digits tell any two float64 apart
-			return sa, sb
+	digits := digitsApart([]float64{a, b})
+	return fmtDigits(a, digits), fmtDigits(b, digits)
+}
+
+// digitsApart is the fewest significant digits, six or more, with which
+// the distinct values of xs print apart (fmtDigits), as fmtPair does for two.
+func digitsApart(xs []float64) int {
+	xs = slices.Clone(xs)
+	slices.Sort(xs)
+	xs = slices.Compact(xs)
+	digits := 6
+	for i := 1; i < len(xs); i++ {
+		for digits < 17 && fmtDigits(xs[i-1], digits) == fmtDigits(xs[i], digits) { // 17 tell any two float64 apart
+			digits++
 		}
 	}
+	return digits
 }
 
 // atOnePoint says that two items at a and b, within the merge tolerance of
