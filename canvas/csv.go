@@ -59,6 +59,10 @@ const (
 	csvRows          = 100_000
 	// CSVMaxPoints bounds the intervals per element a table may ask for.
 	CSVMaxPoints = 1000
+	// CSVMaxRows bounds the rows of a table, about 300 bytes each: 600 MB
+	// at most (1,000 intervals in each of 100,000 elements, 1e8 rows, had
+	// streamed 3.4 GB to disk after 25 s, of some 30 GB).
+	CSVMaxRows = 2_000_000
 )
 
 // DefaultCSVPoints is the number of intervals each of elements elements is
@@ -78,13 +82,22 @@ func DefaultCSVPoints(elements int) int {
 // length follow the quantities. An element's start is read from the right and its end from the
 // left, so jumps show as two rows at one x. The table is streamed: it is
 // formatted in chunks of elements walked in order (fem.Solution.Elements),
-// into a few reused buffers, so memory does not grow with the mesh.
+// into a few reused buffers, so memory does not grow with the mesh. A
+// table of more than CSVMaxRows rows is refused before anything is written.
 func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perElement int, notes []string) error {
 	if s == nil {
 		return fmt.Errorf("canvas: there are no results to write: solve the model first")
 	}
 	if perElement < 1 || perElement > CSVMaxPoints {
 		return fmt.Errorf("canvas: %d points per element: use from 1 to %d", perElement, CSVMaxPoints)
+	}
+	if elements := len(s.Mesh.Elements); elements*(perElement+1) > CSVMaxRows {
+		fit := fmt.Sprintf("a mesh of at most %d elements", CSVMaxRows/2)
+		if k := CSVMaxRows/elements - 1; k >= 1 {
+			fit = fmt.Sprintf("at most %d intervals per element", k)
+		}
+		return fmt.Errorf("canvas: the table would have %d rows (%d elements at %d points each), more than the %d a table holds: ask for %s",
+			elements*(perElement+1), elements, perElement+1, CSVMaxRows, fit)
 	}
 	if u.Name == "" {
 		u = units.SI

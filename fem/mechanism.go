@@ -343,6 +343,14 @@ func mechanismError(m *Model, cuts []float64, shape [][2]float64) error {
 		at[i] = f.X
 	}
 	slices.Sort(at)
+	// The places print with the digits that tell the parts' ends apart (a
+	// part 1 µm long read "from x = 4.0 m to 4.0 m").
+	var ends []float64
+	for _, s := range parts {
+		ends = append(ends, s.Start, s.End)
+	}
+	digits := digitsApart(ends)
+	metres := func(x float64) string { return fmtDigits(x, digits) + " m" }
 	var moving []string
 	count := 0
 	for p := range parts {
@@ -354,7 +362,7 @@ func mechanismError(m *Model, cuts []float64, shape [][2]float64) error {
 		if count++; count > maxPartsNamed {
 			continue
 		}
-		where := fmt.Sprintf("the part from x = %s to %s", fmtMetres(s.Start), fmtMetres(s.End))
+		where := fmt.Sprintf("the part from x = %s to %s", metres(s.Start), metres(s.End))
 		if len(parts) == 1 {
 			where = "the member"
 		}
@@ -367,7 +375,7 @@ func mechanismError(m *Model, cuts []float64, shape [][2]float64) error {
 		if i := sort.SearchFloat64s(at, pivot-1e-9*L); i < len(at) && at[i] <= pivot+1e-9*L {
 			pivot = at[i]
 		}
-		moving = append(moving, fmt.Sprintf("%s can turn about x = %s", where, fmtMetres(pivot)))
+		moving = append(moving, fmt.Sprintf("%s can turn about x = %s", where, metres(pivot)))
 	}
 	if more := count - maxPartsNamed; more > 0 {
 		moving = append(moving, fmt.Sprintf("and %d more parts can move", more))

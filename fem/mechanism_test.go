@@ -66,6 +66,10 @@ func TestHingeMechanismCases(t *testing.T) {
 			"the part from x = 2.0 m to 6.0 m can turn about x = 2.0 m"},
 		{"foundation over every part", hingeChain(6, pure(2, 4), nil, Foundation{Start: 1, End: 5, Modulus: 1e6}), ""},
 		{"no restraint across at all", hingeChain(6, pure(3), []Support{{X: 0, Kind: AxialOnly}}), "the part from x = 0.0 m to 3.0 m"},
+		// A part 1 µm long reads with the digits that tell its ends apart
+		// (it read "from x = 4.0 m to 4.0 m").
+		{"two hinges 1 µm apart in a cantilever", hingeChain(6, pure(4, 4.000001), []Support{{X: 0, Kind: Fixed}}),
+			"the part from x = 4.0 m to 4.000001 m"},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {

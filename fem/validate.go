@@ -41,6 +41,14 @@ func (e *ValidationError) Error() string {
 // 5.6 s, 200 more than 60 s).
 const MaxPatternSpans = 30
 
+// MaxTrainEntries is the most times the combinations may take moving load
+// trains, counted over all of them: each train in each combination is an
+// envelope of its own, worked out over every station and position with the
+// combination's cases beside it (80 trains in each of 80 combinations of
+// a 10 m span took 11 s and 1.3 GB; 10 in each of 10 over 30 spans with a
+// case placed by span 31 s and 0.7 GB).
+const MaxTrainEntries = 100
+
 // Memory. Validate refuses a model whose analysis would need more than
 // memoryLimit. The estimate counts what every stage allocates per element
 // and per key point, measured by TestMemoryPerStage as the growth of
@@ -261,6 +269,7 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 		v.loadCase, v.prefix = 0, ""
 	}
 	combos := map[string]int{}
+	v.trainEntries(m.Combinations)
 	for k, cb := range m.Combinations {
 		it := Item{Kind: CombinationItem, Index: k}
 		switch prev, seen := combos[strings.ToLower(cb.Name)]; {
@@ -289,6 +298,25 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 			if !isFinite(cf.Factor) {
 				v.add(Place{Item: it, Property: FactorProperty, Vertex: f}, fmt.Sprintf("combination %q, factor %d is %v: enter a finite number", cb.Name, f+1, cf.Factor))
 			}
+		}
+	}
+}
+
+// trainEntries refuses combinations that take moving load trains more than
+// MaxTrainEntries times in all, at the combination that passes the limit.
+func (v *validator) trainEntries(cbs []Combination) {
+	total := 0
+	for _, cb := range cbs {
+		total += len(cb.Trains)
+	}
+	if total <= MaxTrainEntries {
+		return
+	}
+	entries := 0
+	for k, cb := range cbs {
+		if entries += len(cb.Trains); entries > MaxTrainEntries {
+			v.add(Place{Item: Item{Kind: CombinationItem, Index: k}, Property: FactorsProperty}, fmt.Sprintf("the combinations take moving load trains %d times in all (%d by combination %q), more than the %d Stave works out: each train in each combination is an envelope of its own; take fewer trains into fewer combinations, or check them in several models", total, entries, cb.Name, MaxTrainEntries))
+			return
 		}
 	}
 }
@@ -854,12 +882,23 @@ func significantDigits(s string) int {
 // more, that tell them apart, so that a gap of 1e-9 m between 2 m and
 // 2.000000001 m shows.
 func fmtPair(a, b float64) (string, string) {
-	for digits := 6; ; digits++ {
-		sa, sb := fmtDigits(a, digits), fmtDigits(b, digits)
-		if sa != sb || a == b || digits >= 17 { // 17 digits tell any two float64 apart
-			return sa, sb
+	digits := digitsApart([]float64{a, b})
+	return fmtDigits(a, digits), fmtDigits(b, digits)
+}
+
+// digitsApart is the fewest significant digits, six or more, with which
+// the distinct values of xs print apart (fmtDigits), as fmtPair does for two.
+func digitsApart(xs []float64) int {
+	xs = slices.Clone(xs)
+	slices.Sort(xs)
+	xs = slices.Compact(xs)
+	digits := 6
+	for i := 1; i < len(xs); i++ {
+		for digits < 17 && fmtDigits(xs[i-1], digits) == fmtDigits(xs[i], digits) { // 17 tell any two float64 apart
+			digits++
 		}
 	}
+	return digits
 }
 
 // atOnePoint says that two items at a and b, within the merge tolerance of

@@ -130,3 +130,34 @@ func TestValidatePatternSpansLimit(t *testing.T) {
 		t.Errorf("%d spans placed by span: %v, want one problem at the case starting %q", MaxPatternSpans+1, err, want)
 	}
 }
+
+// Combinations that take moving load trains more than MaxTrainEntries
+// times in all are refused at the combination where the count passes the
+// limit: each train in each combination is an envelope of its own, so 80
+// trains in each of 80 combinations of a 10 m span took 11 s and 1.3 GB,
+// and the count grows with the product; up to the limit they are accepted.
+func TestValidateTrainEntriesLimit(t *testing.T) {
+	model := func(entries int) *Model {
+		m := &Model{Segments: []Segment{testSegment(0, 10)}, Supports: []Support{{X: 0, Kind: Pinned}, {X: 10, Kind: Roller}}}
+		m.Cases = []LoadCase{{Name: "permanent", PointLoads: []PointLoad{{X: 5, Transverse: -1e3}}}}
+		for k := 0; entries > 0; k++ {
+			cb := Combination{Name: fmt.Sprint("c", k), Factors: []CaseFactor{{Case: 0, Factor: 1}}}
+			for i := 0; i < 7 && entries > 0; i++ {
+				cb.Trains = append(cb.Trains, TrainFactor{Train: i, Factor: 1.5})
+				entries--
+			}
+			m.Combinations = append(m.Combinations, cb)
+		}
+		return m
+	}
+	if err := model(MaxTrainEntries).Validate(); err != nil {
+		t.Errorf("%d train entries: %v, want them accepted", MaxTrainEntries, err)
+	}
+	var ve *ValidationError
+	err := model(MaxTrainEntries + 1).Validate()
+	at := Place{Item: Item{Kind: CombinationItem, Index: MaxTrainEntries / 7}, Property: FactorsProperty}
+	want := fmt.Sprintf("the combinations take moving load trains %d times", MaxTrainEntries+1)
+	if !errors.As(err, &ve) || len(ve.Problems) != 1 || ve.Problems[0].Place != at || !strings.Contains(ve.Problems[0].Message, want) {
+		t.Errorf("%d train entries: %v, want one problem at %+v saying %q", MaxTrainEntries+1, err, at, want)
+	}
+}

@@ -3,6 +3,7 @@ package storage
 import (
 	"bytes"
 	"errors"
+	"fmt"
 	"os"
 	"path/filepath"
 	"reflect"
@@ -377,4 +378,24 @@ func nodeDepth(n *node) int {
 		return inner + 1
 	}
 	return inner
+}
+
+// A syntax error deep in a file is placed where it is: past the decoder's
+// first read, the JSON decoder's offset counts from its buffer, and a NaN
+// on line 53 of a file was reported at "line 31, column 18".
+func TestSyntaxErrorPlacedDeepInTheFile(t *testing.T) {
+	demo := readDemo(t)
+	for _, bad := range []string{"NaN", "Infinity", "+5.5", ".5", "05.5", "5.5.5", "tru"} {
+		text := strings.Replace(demo, `"end": 5.5,`, `"end": `+bad+`,`, 1)
+		i := strings.Index(text, `"end": `+bad)
+		if i < 0 {
+			t.Fatal("the demo file has no segment ending at 5.5 m")
+		}
+		line := 1 + strings.Count(text[:i], "\n")
+		want := fmt.Sprintf("line %d, column ", line)
+		problems := refusal(t, []byte(text))
+		if len(problems) != 1 || !strings.HasPrefix(problems[0].Message, want) {
+			t.Errorf("%q at line %d: %v, want it placed on its line", bad, line, problems)
+		}
+	}
 }

@@ -6,6 +6,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"strings"
 )
 
 // node is one parsed JSON value. The loader walks nodes instead of decoding
@@ -91,7 +92,16 @@ func (p *treeParser) fail(err error) error {
 	var syntax *json.SyntaxError
 	switch {
 	case errors.As(err, &syntax):
-		return fmt.Errorf("%s: %v; the file is not valid JSON, fix the text there", p.position(syntax.Offset), syntax)
+		// syntax.Offset is not the place in the file for a value the
+		// decoder reads whole (it counts the bytes of the values read so
+		// far): a NaN on line 53 was placed on line 31. The decoder stands
+		// at the offending character, or before the value it holds, with
+		// spaces between.
+		at := p.dec.InputOffset()
+		for at < int64(len(p.data)) && strings.IndexByte(" \t\r\n", p.data[at]) >= 0 {
+			at++
+		}
+		return fmt.Errorf("%s: %v; the file is not valid JSON, fix the text there", p.position(at), syntax)
 	case err == io.EOF || errors.Is(err, io.ErrUnexpectedEOF):
 		return fmt.Errorf("%s: the file ends too early; it may have been cut off", p.position(int64(len(p.data))))
 	}

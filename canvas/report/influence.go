@@ -188,8 +188,9 @@ func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *mo
 		switch {
 		case tr.Target && target != nil:
 			kind := targetKind(*target)
+			size := max(math.Abs(tr.Largest.Value), math.Abs(tr.Smallest.Value))
 			fmt.Fprintf(w, "  %s: largest %s, smallest %s\n", describeTarget(*target, u),
-				trainExtremeText(tr.Largest, kind, u, false, 0), trainExtremeText(tr.Smallest, kind, u, false, 0))
+				trainExtremeText(tr.Largest, kind, u, false, size), trainExtremeText(tr.Smallest, kind, u, false, size))
 		case target != nil:
 			fmt.Fprintf(w, "  %s: 0 wherever the train stands; a train's loads act across the member and move no axial force or axial displacement\n", describeTarget(*target, u))
 		}

@@ -43,6 +43,9 @@ func convergeCommand(args []string, stdout io.Writer) error {
 	ctx := context.Background()
 	table, err := study.Convergence(ctx, &p.Model, *maxPer)
 	if tf := (study.TooFineError{}); errors.As(err, &tf) {
+		if tf.Fits >= 1 {
+			return usageError{fmt.Sprintf("--max %d: %s: %v: give --max %d or less", *maxPer, path, err, tf.Fits)}
+		}
 		return usageError{fmt.Sprintf("--max %d: %s: %v", *maxPer, path, err)}
 	}
 	if err != nil {

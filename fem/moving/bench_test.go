@@ -145,3 +145,34 @@ func BenchmarkDragStep(b *testing.B) {
 		}
 	}
 }
+
+// A long train: 100 axles of 20 kN at 0.25 m with a uniform load along
+// them (an invented platoon), over the benchmarks' two spans on 2,000
+// elements: the envelope sums the axles afresh only every resumEvery
+// stretches of positions, and this measures that path.
+func BenchmarkEnvelopeHundredAxles(b *testing.B) {
+	m := twoSpans()
+	m.Mesh = fem.MeshSettings{Elements: 2000}
+	p, err := fem.Prepare(m)
+	if err != nil {
+		b.Fatal(err)
+	}
+	mesh := p.Mesh()
+	in, err := New(p)
+	if err != nil {
+		b.Fatal(err)
+	}
+	tr := &Train{Axles: []Axle{{Load: 20e3}}, Uniform: UniformLoad{Load: 5e3, Length: 24.75}, Direction: BothWays}
+	for range 99 {
+		tr.Axles = append(tr.Axles, Axle{Load: 20e3, Spacing: 0.25})
+	}
+	stations := Stations(mesh)
+	b.ResetTimer()
+	start := cpuTime(b)
+	defer func() { b.ReportMetric(float64(cpuTime(b)-start)/1e6/float64(b.N), "cpu-ms/op") }()
+	for range b.N {
+		if _, err := in.Envelope(tr, mesh, stations); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

@@ -65,6 +65,36 @@ func TestCrowdedSupportsInfluenceLines(t *testing.T) {
 				return proppedReaction(5, s)
 			},
 		},
+		{
+			// Two fixed supports 1 µm apart at midspan (1e-7 of the member):
+			// the same two propped cantilevers. The sweep judged the second
+			// support to restrain nothing, the deflection it meets growing
+			// as the cube of the stretch from the first (1e-21 of the basis
+			// against a tolerance of 1e-12), and refused the member.
+			"two fixed supports 1 µm apart",
+			beam(10, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: 5, Kind: fem.Fixed}, fem.Support{X: 5 + 1e-6, Kind: fem.Fixed},
+				fem.Support{X: 10, Kind: fem.Roller}),
+			Target{Reaction: true, Support: 0, Motion: fem.Transverse},
+			func(s float64) float64 {
+				if s >= 5 {
+					return 0
+				}
+				return proppedReaction(5, s)
+			},
+		},
+		{
+			// Three rollers 1 µm apart: as three 0.1 mm apart.
+			"three rollers 1 µm apart",
+			beam(10, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: 5, Kind: fem.Roller}, fem.Support{X: 5 + 1e-6, Kind: fem.Roller},
+				fem.Support{X: 5 + 2e-6, Kind: fem.Roller}, fem.Support{X: 10, Kind: fem.Roller}),
+			Target{Reaction: true, Support: 0, Motion: fem.Transverse},
+			func(s float64) float64 {
+				if s >= 5 {
+					return 0
+				}
+				return proppedReaction(5, s)
+			},
+		},
 	} {
 		l, err := influence(t, c.m).Line(c.target)
 		if err != nil {

@@ -47,17 +47,36 @@ func (e *extreme) least(v float64, at Placement) {
 // before the point and just beyond it. Where the lines may jump, a
 // position with an axle standing on the point is also evaluated with the
 // axle on each of the sides given (on the line's sides of its jump).
+//
+// F is written about the stretch's first front: each load's piece of a
+// line, a cubic about the piece's start, is shifted by no more than the
+// piece's length, so that F keeps its digits on a piece 0.1 mm long 5 m
+// from the member's origin, or for an axle kilometres behind the front
+// (written about the origin, such a cubic cancelled all but a few).
 func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
 	n, ell := ls.n, ls.length
 	r.terms(ls)
 	br := r.mergeBreaks(ls)
-	// place[a] is the piece of ls under axle a (then under the ends of the
+	// place[a] is the slot of ls under axle a (then under the ends of the
 	// uniform load), advanced as the stretches of positions go by.
 	places := slices.Grow(r.places[:0], len(r.axles)+2)[:len(r.axles)+2]
 	clear(places)
 	r.places = places
 	ends := [2]float64{r.u0, r.u1}
-	var f [maxReaders]poly
+	// f holds, about front origin, every load's term on a slot that is
+	// not short (see terms) where it stood at the last stretch evaluated:
+	// a long train moves a few loads to another slot per stretch, so f
+	// takes their change alone (summing every load on every stretch cost
+	// the square of the axles), and is summed afresh every resumEvery
+	// stretches, against drift, and always for a short train. g holds, on
+	// each stretch afresh, the terms on short slots, which f never takes:
+	// taken out of f, their large coefficients would leave their round-off
+	// behind. f is also summed afresh where it would be shifted more than
+	// ℓ from where it was last summed: round-off it holds grows with the
+	// cube of the shift (a train whose axles are far apart crosses long
+	// stretches with no axle on the member, over which f is moved on).
+	var f, g [maxReaders]poly
+	origin, summedAt := 0.0, 0.0
 	summed := -1 // stretches since f was summed afresh; −1 before the first
 	for i := 1; i < len(br); i++ {
 		a, b := br[i-1], br[i]
@@ -68,45 +87,47 @@ func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
 			continue // two breaks at one front: the stretches either side hold it
 		}
 		mid := 0.5 * (a + b)
-		// f holds every axle's term on the piece it stood on at the last
-		// stretch evaluated: a long train moves a few axles to another
-		// piece per stretch, so f takes their change alone (summing every
-		// axle on every stretch cost the square of the axles), and is
-		// summed afresh every resumEvery stretches, against drift, and
-		// always for a short train.
-		full := summed < 0 || summed == resumEvery || len(r.axles) <= shortTrain
+		full := summed < 0 || summed == resumEvery || len(r.axles) <= shortTrain || a-summedAt > ell
 		if full {
 			f = [maxReaders]poly{}
-			summed = 0
+			summed, summedAt = 0, a
+		} else {
+			for k := range n {
+				f[k] = f[k].shift((a - origin) / ell)
+			}
 		}
+		origin = a
 		summed++
-		ns := slots(ls)
+		g = [maxReaders]poly{}
 		for k, ax := range r.axles {
-			move(ls, f[:n], &places[k], mid+ax.offset, ax.load, r.axleTerms[k*ns*n:], full)
+			r.move(ls, f[:n], g[:n], &places[k], a, mid, ax.offset, ax.load, r.axleTerms, full)
 		}
 		if r.uniform {
 			for e, off := range ends {
 				sign := float64(2*e - 1) // the integral to the far end less that to the near one
-				move(ls, f[:n], &places[len(r.axles)+e], mid+off, sign*r.q, r.uniformTerms[e*ns*n:], full)
+				r.move(ls, f[:n], g[:n], &places[len(r.axles)+e], a, mid, off, sign*r.q, r.uniformTerms, full)
 			}
 		}
+		h := (b - a) / ell
 		for i := range n {
+			F := f[i]
+			F.add(1, &g[i])
 			var roots [3]float64
-			cands := append(r.candidates[:0], a/ell, b/ell)
-			cands = append(cands, roots[:rootsIn(f[i].derivative(), a/ell, b/ell, &roots)]...)
+			cands := append(r.candidates[:0], 0, h)
+			cands = append(cands, roots[:rootsIn(F.derivative(), 0, h, &roots)]...)
 			r.candidates = cands
-			for c, u := range cands {
-				front := u * ell
+			for c, v := range cands {
+				front := a + v*ell
 				switch c {
 				case 0:
 					front = a
 				case 1:
 					front = b
 				}
-				v := f[i].at(u)
+				value := F.at(v)
 				at := Placement{r.direction, front}
-				hi[i].most(v, at)
-				lo[i].least(v, at)
+				hi[i].most(value, at)
+				lo[i].least(value, at)
 			}
 		}
 	}
@@ -122,75 +143,89 @@ const (
 	resumEvery = 32
 )
 
-// move advances *place to the slot of ls holding sigma (see terms), where a
-// load c stands whose terms per slot are terms (len(f) lines a slot), and
-// adds c times its terms there to f; unless full, f already holds its
-// terms on the slot it leaves, which it trades for the new (nothing when it
-// stays).
-func move(ls *lines, f []poly, place *int, sigma, c float64, terms []poly, full bool) {
-	n := len(f)
+// shortSlot is the length, relative to ℓ, of a piece of ls below which a
+// load's term on it is summed afresh on every stretch of positions (see
+// scan): f keeps the round-off of a term it takes out, its coefficients'
+// times 1e-16, which a stretch as long as ℓ reads times (ℓ/piece)³ at
+// most, 1e-10 of the line at this length.
+const shortSlot = 1e-2
+
+// move advances *place to the slot of ls holding the load at mid + off
+// (front mid), where a load c stands whose terms per slot are terms (see
+// terms), and adds c times its term there, about front a, to f, or to g
+// on a short slot; unless full, f already holds its term on the slot it
+// leaves, which it trades for the new (nothing when it stays).
+func (r *run) move(ls *lines, f, g []poly, place *int, a, mid, off, c float64, terms []poly, full bool) {
 	old := *place
-	p := ls.advance(place, sigma)
-	if !full && p == old {
+	p := ls.advance(place, mid+off)
+	if !full && p == old && !r.short[p] {
 		return
 	}
-	g := terms[p*n : p*n+n]
-	for i := range f {
-		f[i].add(c, &g[i])
+	if !full && p != old && !r.short[old] {
+		addTerm(ls, f, old, a+off, -c, terms)
 	}
-	if !full {
-		g0 := terms[old*n : old*n+n]
-		for i := range f {
-			f[i].add(-c, &g0[i])
-		}
+	if r.short[p] {
+		addTerm(ls, g, p, a+off, c, terms)
+	} else if full || p != old {
+		addTerm(ls, f, p, a+off, c, terms)
 	}
 }
 
-// terms writes, for every axle and piece of ls, each line's value per
-// newton of that axle as a polynomial in ŝ (the axle at ŝ·ℓ + offset
-// standing on the piece), and for each end of the uniform load the
-// integral of each line from 0 to it.
+// addTerm adds to f c times the terms of slot p (len(f) lines a slot)
+// written about the load at x: a polynomial in the distance the load moves
+// on, over ℓ.
+func addTerm(ls *lines, f []poly, p int, x, c float64, terms []poly) {
+	n := len(f)
+	t := 0.0
+	switch {
+	case p == 0:
+		return // nothing before the member
+	case p <= ls.pieces():
+		t = (x - ls.bounds[p-1]) / ls.length
+	}
+	g := terms[p*n : p*n+n]
+	for i := range f {
+		f[i].addShifted(c, &g[i], t)
+	}
+}
+
+// terms writes, for every slot of ls, each line's value per newton of an
+// axle standing there as a polynomial in τ (the axle at τ·ℓ from the
+// piece's start), and for an end of the uniform load there the integral of
+// each line from 0 to it; and which slots are short (shortSlot).
 //
-// A load's terms take slots(ls) places: the pieces of ls between two more,
-// before the member (slot 0) and past it (the last), where a train that
-// drives off its ends (Train.OffEnds) has loads that carry nothing: an axle
-// there adds zero, an end of the uniform load the integral to that end of
-// the member.
+// The slots are the pieces of ls between two more: before the member
+// (slot 0) and past it (the last), where a train that drives off its ends
+// (Train.OffEnds) has loads that carry nothing: an axle there adds zero,
+// an end of the uniform load the integral to that end of the member.
 func (r *run) terms(ls *lines) {
 	n, np := ls.n, ls.pieces()
 	ns := slots(ls)
-	r.axleTerms = slices.Grow(r.axleTerms[:0], len(r.axles)*ns*n)[:len(r.axles)*ns*n]
-	for k, ax := range r.axles {
-		at := r.axleTerms[k*ns*n : (k+1)*ns*n]
-		clear(at[:n])
-		clear(at[(ns-1)*n:])
-		for p := range np {
-			t := (ax.offset - ls.bounds[p]) / ls.length
-			for i := range n {
-				at[(p+1)*n+i] = ls.coef[p*n+i].shift(t)
-			}
-		}
+	r.short = slices.Grow(r.short[:0], ns)[:ns]
+	clear(r.short)
+	for p := range np {
+		r.short[p+1] = ls.bounds[p+1]-ls.bounds[p] < shortSlot*ls.length
 	}
+	r.axleTerms = slices.Grow(r.axleTerms[:0], ns*n)[:ns*n]
+	clear(r.axleTerms[:n])
+	copy(r.axleTerms[n:], ls.coef[:np*n])
+	clear(r.axleTerms[(ns-1)*n:])
 	if !r.uniform {
 		return
 	}
-	r.uniformTerms = slices.Grow(r.uniformTerms[:0], 2*ns*n)[:2*ns*n]
-	for e, off := range [2]float64{r.u0, r.u1} {
-		ut := r.uniformTerms[e*ns*n : (e+1)*ns*n]
+	r.uniformTerms = slices.Grow(r.uniformTerms[:0], ns*n)[:ns*n]
+	for i := range n {
+		r.uniformTerms[i] = poly{}
+		r.uniformTerms[(ns-1)*n+i] = poly{ls.integral(i, ls.bounds[np])}
+	}
+	for p := range np {
 		for i := range n {
-			ut[i] = poly{}
-			ut[(ns-1)*n+i] = poly{ls.integral(i, ls.bounds[np])}
-		}
-		for p := range np {
-			t := (off - ls.bounds[p]) / ls.length
-			for i := range n {
-				phi := ls.coef[p*n+i].antiderivative()
-				for c := range phi {
-					phi[c] *= ls.length
-				}
-				phi[0] += ls.integ[p*n+i]
-				ut[(p+1)*n+i] = phi.shift(t)
+			phi := ls.coef[p*n+i].antiderivative()
+			for c := range phi {
+				phi[c] *= ls.length
 			}
+			phi[0] += ls.integ[p*n+i]
+			r.uniformTerms[(p+1)*n+i] = phi
 		}
 	}
 }

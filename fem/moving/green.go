@@ -244,14 +244,46 @@ func (s *sweeps) initial() basis {
 }
 
 // degenerate is the size, relative to the basis, below which a restraint
-// finds nothing left to restrain: the member is a mechanism there.
+// finds nothing left to restrain: the member is a mechanism there. Sizes
+// are weighed by the stretch the sweep has just crossed (stretchWeights),
+// so that a support 1 µm beyond another on 10 m, which meets deflections
+// of the order of (1e-7)³ of the forces, is judged by its own stretch.
 const degenerate = 1e-12
+
+// stretchWeights are the weights of the state's components over a stretch
+// h long (relative to ℓ), as solveJump scales its rows: over it a force V̂
+// of order 1 makes M̂ of order h, θ of h² and ŵ of h³ (û of h, N̂ of 1).
+// A stretch as long as the member weighs them alike.
+func (s *sweeps) stretchWeights(h float64) state {
+	h = min(h, 1)
+	if s.problem == axialProblem {
+		return state{1 / h, 1}
+	}
+	return state{1 / (h * h * h), 1 / (h * h), 1 / h, 1}
+}
+
+// weighed is the norm of z with its components weighed by w.
+func weighed(z, w state) float64 {
+	var n state
+	for i := range z {
+		n[i] = z[i] * w[i]
+	}
+	return norm(n)
+}
 
 // cross carries the basis z across key point k, from left to right (dir 1)
 // or right to left (dir −1). It returns the new basis and the map of its
 // coefficients to those of z.
 func (s *sweeps) cross(z basis, k int, dir float64) (basis, mat2, error) {
 	var m mat2
+	// The stretch just crossed, towards k.
+	h := 1.0
+	if K := len(s.keys) - 1; dir > 0 && k > 0 {
+		h = (s.keys[k] - s.keys[k-1]) / s.length
+	} else if dir < 0 && k < K {
+		h = (s.keys[k+1] - s.keys[k]) / s.length
+	}
+	wt := s.stretchWeights(h)
 	for c := range s.r {
 		n := norm(z[c])
 		if n == 0 || math.IsInf(n, 0) || math.IsNaN(n) {
@@ -271,14 +303,20 @@ func (s *sweeps) cross(z basis, k int, dir float64) (basis, mat2, error) {
 		}
 		var next basis
 		var cm mat2
+		// Each state's size, weighed: the restraint must find a share of
+		// one of them in its row.
+		var size [2]float64
+		for c := range s.r {
+			size[c] = weighed(z[c], wt)
+		}
 		if s.r == 1 {
-			if math.Abs(z[0][a.row]) < degenerate {
+			if math.Abs(z[0][a.row])*wt[a.row] < degenerate*size[0] {
 				return z, m, s.mechanism(k)
 			}
 		} else {
 			z0, z1 := z[0][a.row], z[1][a.row]
 			n := math.Hypot(z0, z1)
-			if n < degenerate {
+			if math.Hypot(z0/size[0], z1/size[1])*wt[a.row] < degenerate {
 				return z, m, s.mechanism(k)
 			}
 			c0, c1 := z1/n, -z0/n
@@ -291,8 +329,10 @@ func (s *sweeps) cross(z basis, k int, dir float64) (basis, mat2, error) {
 			// made the basis degenerate once supports crowd together
 			// (three rollers 0.1 mm apart read as a mechanism).
 			v[a.row], v[a.into] = 0, 0
+			// What is left of the states combined, against the sizes they
+			// were combined from.
 			nv := norm(v)
-			if nv < degenerate {
+			if weighed(v, wt) < degenerate*(math.Abs(c0)*size[0]+math.Abs(c1)*size[1]) {
 				return z, m, s.mechanism(k)
 			}
 			for i := range v {

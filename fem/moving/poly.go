@@ -32,6 +32,22 @@ func (p poly) shift(t float64) poly {
 	return p
 }
 
+// addShifted sets p to p + c·q(u + t), as add(c, q.shift(t)) does, but
+// for a cubic q (every influence line) in one pass: the shifted cubic's
+// coefficients are q(t), q′(t), q″(t)/2 and q₃ (Taylor).
+func (p *poly) addShifted(c float64, q *poly, t float64) {
+	if q[4] != 0 {
+		s := q.shift(t)
+		p.add(c, &s)
+		return
+	}
+	q3, q2, q1 := c*q[3], c*q[2], c*q[1]
+	p[0] += ((q3*t+q2)*t+q1)*t + c*q[0]
+	p[1] += (3*q3*t+2*q2)*t + q1
+	p[2] += 3*q3*t + q2
+	p[3] += q3
+}
+
 // derivative is p′.
 func (p *poly) derivative() poly {
 	return poly{p[1], 2 * p[2], 3 * p[3], 4 * p[4]}

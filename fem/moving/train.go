@@ -170,6 +170,9 @@ func (t *Train) Problems(L float64) []Problem {
 		count := strconv.Itoa(n)
 		if n >= positionsCap {
 			count = strconv.FormatFloat((hi-lo)/t.Step+1, 'g', 3, 64) // the cap is not the count
+			if math.IsInf((hi-lo)/t.Step, 1) {
+				count = "more than 1e+308" // nor is +Inf
+			}
 		}
 		add("step", "a step of %s m takes %s positions along the %s m the train can move; Stave takes at most %d: enter a step of at least %s m", trim(t.Step), count, trim(hi-lo), MaxPositions, trim((hi-lo)/(MaxPositions-1)))
 	}
@@ -379,6 +382,7 @@ type run struct {
 	candidates                           []float64
 	places                               []int
 	axleTerms, uniformTerms              []poly
+	short                                []bool
 	tolerance                            float64 // round-off within which a front that puts an axle on a point is on the run, m
 }
 

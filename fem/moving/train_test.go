@@ -233,6 +233,8 @@ func TestTrainProblems(t *testing.T) {
 		// 8 m / 1e-300 m: the count once said 1000000000000000, the cap
 		// positions keeps it under.
 		{"more positions than an int holds", func(t *Train) { t.Step = 1e-300 }, "step", "takes 8e+300 positions"},
+		// 8 m / 5e-324 m overflows: the count once read "+Inf".
+		{"more positions than a float holds", func(t *Train) { t.Step = 5e-324 }, "step", "takes more than 1e+308 positions"},
 		{"negative step", func(t *Train) { t.Step = -0.1 }, "step", "enter a step above zero"},
 		{"no loads", func(t *Train) { t.Axles = nil }, "", "no loads"},
 		{"more axles than the envelope's search takes", func(t *Train) {

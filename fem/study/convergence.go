@@ -117,7 +117,15 @@ func Convergence(ctx context.Context, m *fem.Model, maxPerStretch int) (Table, e
 		finest *= 2
 	}
 	if err := fits(m, finest, len(keys)-1); err != nil {
-		return Table{}, TooFineError{fmt.Errorf("convergence study, the finest mesh of %d elements per stretch: %w", finest, err)}
+		fit := finest / 2
+		for fit >= 1 && fits(m, fit, len(keys)-1) != nil {
+			fit /= 2
+		}
+		err = fmt.Errorf("convergence study, the finest mesh of %d elements per stretch: %w", finest, err)
+		if fit >= 1 {
+			err = fmt.Errorf("%w; a study up to %d elements per stretch fits", err, fit)
+		}
+		return Table{}, TooFineError{Err: err, Fits: fit}
 	}
 	var t Table
 	for k := 1; k <= maxPerStretch; k *= 2 {
@@ -238,8 +246,12 @@ func Subdivide(nodes []float64, k int) []float64 {
 
 // TooFineError is the refusal of a study whose finest mesh, as asked for,
 // would not fit in memory: the request is at fault, not the model, which a
-// coarser study takes.
-type TooFineError struct{ Err error }
+// coarser study takes. Fits is the finest study that fits, in elements
+// per stretch (a power of two), or 0 when not even one element does.
+type TooFineError struct {
+	Err  error
+	Fits int
+}
 
 func (e TooFineError) Error() string { return e.Err.Error() }
 func (e TooFineError) Unwrap() error { return e.Err }

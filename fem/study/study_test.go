@@ -3,6 +3,7 @@ package study
 import (
 	"context"
 	"errors"
+	"fmt"
 	"math"
 	"strings"
 	"testing"
@@ -322,6 +323,15 @@ func TestInvalidRequests(t *testing.T) {
 	// --max: the model itself is sound.
 	if _, err := Convergence(context.Background(), &m, 1_000_000_000); err == nil || !strings.Contains(err.Error(), "the finest mesh of 536870912 elements per stretch: the mesh would need") || !errors.As(err, new(TooFineError)) {
 		t.Errorf("Convergence up to 10⁹ elements per stretch: %v (%T)", err, err)
+	}
+	// It names the finest study that fits, a power of two: the default
+	// --max 64 on a file of 100,000 load points was refused with advice
+	// about the file's mesh, which the study does not use.
+	_, err := Convergence(context.Background(), &m, 1_000_000_000)
+	var tf TooFineError
+	if !errors.As(err, &tf) || tf.Fits < 1 || tf.Fits&(tf.Fits-1) != 0 || fits(&m, tf.Fits, 1) != nil || fits(&m, 2*tf.Fits, 1) == nil ||
+		!strings.Contains(err.Error(), fmt.Sprintf("a study up to %d elements per stretch fits", tf.Fits)) {
+		t.Errorf("Convergence up to 10⁹ elements per stretch: %v, fits %d: want the largest power of two that fits named", err, tf.Fits)
 	}
 	if _, err := Adapt(context.Background(), &m, 0, 100); err == nil {
 		t.Error("Adapt with target 0 accepted")

@@ -10,6 +10,8 @@ import (
 	"strconv"
 	"strings"
 	"text/tabwriter"
+	"unicode"
+	"unicode/utf8"
 
 	"stave/canvas/report"
 	"stave/fem"
@@ -97,8 +99,24 @@ func (t *textWriter) Member(m Member) error {
 	if m.Accuracy != nil {
 		accuracy = m.Accuracy.text()
 	}
-	t.rows = append(t.rows, strings.Join([]string{m.File, mark, m.Status.String(), governing, utilisation, deflection, accuracy, dash(warningText(m))}, "\t"))
+	cells := []string{m.File, mark, m.Status.String(), governing, utilisation, deflection, accuracy, dash(warningText(m))}
+	for i, c := range cells {
+		cells[i] = printable(c)
+	}
+	t.rows = append(t.rows, strings.Join(cells, "\t"))
 	return nil
+}
+
+// printable is s as the text table writes it: as it is, or, where it holds
+// a control character (a line feed, a tab) or bytes that are not UTF-8, as
+// Go quotes it without the quotes ("a\nb\xff.json"), so that a file name
+// from a folder's listing keeps to its row and cell.
+func printable(s string) string {
+	if utf8.ValidString(s) && !strings.ContainsFunc(s, unicode.IsControl) {
+		return s
+	}
+	q := strconv.Quote(s)
+	return q[1 : len(q)-1]
 }
 
 // dash stands for an empty cell.
@@ -128,10 +146,10 @@ func (t *textWriter) Close(s Summary) error {
 	tw.Flush()
 	fmt.Fprintf(bw, "\n%s: %d ok, %d caution, %d failed a check, %d refused\n", members(s.Members), s.OK, s.Caution, s.Failed, s.Refused)
 	if h := s.Highest; h != nil {
-		fmt.Fprintf(bw, "Highest utilisation: %s, %s, in %s\n", check.UtilisationText(h.Utilisation), h.Name, h.Who)
+		fmt.Fprintf(bw, "Highest utilisation: %s, %s, in %s\n", check.UtilisationText(h.Utilisation), h.Name, printable(h.Who.String()))
 	}
 	if d := s.Deflection; d != nil {
-		fmt.Fprintf(bw, "Largest deflection for its limit: %s, %s, in %s\n", deflectionText(&d.Deflection), d.Name, d.Who)
+		fmt.Fprintf(bw, "Largest deflection for its limit: %s, %s, in %s\n", deflectionText(&d.Deflection), d.Name, printable(d.Who.String()))
 	}
 	fmt.Fprintln(bw, "Utilisation is the checked value over its limit (1 at the limit); L is the span or overhang checked.")
 	fmt.Fprintf(bw, "FE accuracy: how far the finite element extremes are from the exact ones, as a share of the field's largest magnitude, in the field named (the default mesh keeps it within %.3g %%; - where there is no exact solution); the checks judge the exact solution where there is one.\n", 100*fem.MeshAccuracy)

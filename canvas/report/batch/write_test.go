@@ -7,6 +7,8 @@ import (
 	"encoding/json"
 	"fmt"
 	"math"
+	"os"
+	"path/filepath"
 	"strconv"
 	"strings"
 	"testing"
@@ -187,5 +189,38 @@ func TestMembersInWords(t *testing.T) {
 		if got := members(c.n); got != c.want {
 			t.Errorf("members(%d) = %q, want %q", c.n, got, c.want)
 		}
+	}
+}
+
+// A file whose name holds a line feed and a byte that is not UTF-8 (a
+// folder's listing may hold any name) keeps to its one row of the text
+// table, the name and the refusal that quotes it escaped as Go writes them,
+// and so does the summary that names it; it once broke the row in two and
+// wrote the raw byte.
+func TestTextRowOfAHostileName(t *testing.T) {
+	dir := t.TempDir()
+	name := filepath.Join(dir, "a\nb\xff.json")
+	demo, err := os.ReadFile("../../../testdata/simply_supported_uniform.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(name, demo, 0o644); err != nil {
+		t.Skipf("this file system takes no such name: %v", err)
+	}
+	bad := filepath.Join(dir, "c\nd.json")
+	if err := os.WriteFile(bad, []byte("not JSON"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out, _, _ := write(t, "text", []string{name, bad})
+	if !utf8.ValidString(out) {
+		t.Errorf("the table holds bytes that are not UTF-8:\n%s", out)
+	}
+	for _, line := range strings.Split(out, "\n") {
+		if strings.HasPrefix(line, "b") || strings.HasPrefix(line, "d.json") {
+			t.Errorf("a name broke its row:\n%s", out)
+		}
+	}
+	if !strings.Contains(out, `a\nb\xff.json`) || !strings.Contains(out, `c\nd.json`) {
+		t.Errorf("the names are not written escaped:\n%s", out)
 	}
 }
