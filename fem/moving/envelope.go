@@ -319,9 +319,14 @@ func (ls *lines) advance(p *int, sigma float64) int {
 // lines jump, with that axle on the given sides of the point, where the
 // position is an end of the run: inside it the stretches of positions
 // either side end there, and scan takes their ends, the axle just before
-// the point and just beyond it.
+// the point and just beyond it. On an end of the member the axle standing
+// on it gives a value of its own (lines.standing) that neither limit
+// holds, so there every position on the run that puts an axle on it is
+// evaluated.
 func (r *run) scanJumps(ls *lines, hi, lo []extreme, sides []fem.Side) {
 	first, last := r.s0, r.front(r.n-1)
+	tol := keyTolerance * ls.length
+	onEnd := ls.at-ls.bounds[0] <= tol || ls.bounds[ls.pieces()]-ls.at <= tol
 	for a, ax := range r.axles {
 		front := ls.at - ax.offset
 		switch {
@@ -329,6 +334,7 @@ func (r *run) scanJumps(ls *lines, hi, lo []extreme, sides []fem.Side) {
 			front = first
 		case math.Abs(front-last) <= r.tolerance:
 			front = last
+		case onEnd && front > min(first, last) && front < max(first, last):
 		default:
 			continue
 		}
@@ -344,7 +350,7 @@ func (r *run) scanJumps(ls *lines, hi, lo []extreme, sides []fem.Side) {
 				base += r.q * (ls.integralOn(i, front+r.u1) - ls.integralOn(i, front+r.u0))
 			}
 			for _, side := range sides {
-				v := base + ax.load*ls.value(i, ls.at, side)
+				v := base + ax.load*ls.standing(i, side)
 				hi[i].most(v, at)
 				lo[i].least(v, at)
 			}
@@ -859,6 +865,7 @@ func (in *Influence) envelopeStations(s *sweeps, e *Envelope, from, to int) {
 				_, scale, _ := s.quantityRow(EnvelopeQuantities[q])
 				rs[q] = s.stationReader(i, tau, row, scale)
 				rs[q].x = x
+				rs[q].jump = in.jump(Target{Quantity: EnvelopeQuantities[q], X: x, Side: side})
 				hi[q], lo[q] = extreme{}, extreme{}
 			}
 			ls.fill(s, rs[:])

@@ -170,7 +170,6 @@ func (in *Influence) sweepsFor(t Target) (*sweeps, error) {
 type Line struct {
 	Target Target
 	lines
-	jump float64 // see Jump
 }
 
 // Line returns the influence line of t.
@@ -184,7 +183,7 @@ func (in *Influence) Line(t Target) (*Line, error) {
 	if err != nil {
 		return nil, err
 	}
-	ln := &Line{Target: t, jump: in.jump(t)}
+	ln := &Line{Target: t}
 	ln.fill(s, []reader{r})
 	return ln, nil
 }
@@ -213,7 +212,7 @@ func (in *Influence) jump(t Target) float64 {
 // its value is the line's limit on that side less the jump (read on the
 // right) or plus it (read on the left); at an end of the member, where the
 // line has no piece beyond the point, only the jump gives it.
-func (l *Line) Jump() float64 { return l.jump }
+func (l *Line) Jump() float64 { return l.jumps[0] }
 
 // reader is a linear quantity read at one point, in the coefficients of the
 // sweeps: for a load after the point, the row that reads the left sweep's
@@ -228,6 +227,7 @@ type reader struct {
 	tau                 float64
 	x                   float64 // the point, m
 	scale               float64
+	jump                float64 // see Line.Jump
 }
 
 // reader compiles t for s.
@@ -266,6 +266,7 @@ func (in *Influence) reader(s *sweeps, t Target) (reader, error) {
 	i, tau := s.locate(t.X, t.Side)
 	r := s.stationReader(i, tau, row, scale)
 	r.x = t.X
+	r.jump = in.jump(t)
 	if k := s.keyIndex(t.X); math.Abs(t.X-s.keys[k]) <= keyTolerance*s.length {
 		r.x = s.keys[k] // the key point itself, as locate took it
 	}
@@ -377,6 +378,9 @@ type lines struct {
 	integ  []float64 // [piece·n + line]
 	// at is the point the readers read (where a line may jump).
 	at float64
+	// jumps is, per line, how much it rises as the load crosses at
+	// towards +x (see Line.Jump).
+	jumps []float64
 	// rows is scratch: per stretch and reader, the row fill applies.
 	rows [][2]float64
 }
@@ -392,6 +396,10 @@ func (ls *lines) fill(s *sweeps, rs []reader) {
 	r0 := &rs[0]
 	ls.n, ls.length = n, s.length
 	ls.at = r0.x
+	ls.jumps = ls.jumps[:0]
+	for i := range n {
+		ls.jumps = append(ls.jumps, rs[i].jump)
+	}
 	ls.bounds, ls.coef = ls.bounds[:0], ls.coef[:0]
 	ls.rows = slices.Grow(ls.rows[:0], 2*K*n)[:2*K*n]
 	// rows[j·n+i] reads the right sweep from stretch j's coefficients (j up
@@ -498,6 +506,22 @@ func (ls *lines) value(i int, s float64, side fem.Side) float64 {
 	return ls.coef[p*ls.n+i].at((s - ls.bounds[p]) / ls.length)
 }
 
+// standing is line i with the load standing on its own point at, taken
+// as the limit of the piece on side (Left: the load just before the point).
+// At an end of the member the piece beyond it lies off the member: its
+// limit is the inside piece's across the jump (a load on the free end of a
+// cantilever is all its shear force there).
+func (ls *lines) standing(i int, side fem.Side) float64 {
+	tol := keyTolerance * ls.length
+	switch {
+	case side == fem.Left && ls.at-ls.bounds[0] <= tol:
+		return ls.value(i, ls.at, fem.Right) - ls.jumps[i]
+	case side == fem.Right && ls.bounds[ls.pieces()]-ls.at <= tol:
+		return ls.value(i, ls.at, fem.Left) + ls.jumps[i]
+	}
+	return ls.value(i, ls.at, side)
+}
+
 // integral is ∫ line i from 0 to s, per newton times m.
 func (ls *lines) integral(i int, s float64) float64 {
 	p := ls.piece(s, fem.Right)
@@ -563,6 +587,12 @@ func (l *Line) Extremes() (lo, hi Point) {
 			take(a+u*l.length, c.at(u))
 		}
 		take(b, c.at(h))
+	}
+	// A load standing on the line's own point where it jumps: at an end of
+	// the member a value no piece holds (see standing).
+	if l.jumps[0] != 0 {
+		take(l.at, l.standing(0, fem.Left))
+		take(l.at, l.standing(0, fem.Right))
 	}
 	lo, hi = cands[0], cands[0]
 	for _, c := range cands[1:] {
