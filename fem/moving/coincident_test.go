@@ -61,3 +61,37 @@ func TestLoadsMeetingJumpsAtOnePosition(t *testing.T) {
 		})
 	}
 }
+
+// The position an envelope names gives the value it reports. Driving off
+// an overhang's tip, the front axle leaves the member at front = L: the
+// effect just after is the other axle's alone, but the train placed with
+// its front on the tip still carries the front axle there. The largest
+// shear at 5 m of a span of 7 m with a 3 m overhang under 100 kN leading
+// 150 kN by 4.3 m is the rear axle's alone at 5.7 m, 150·(7 − 5.7)/7 kN
+// (the support's reaction, statics), reached as the front axle leaves the
+// tip: it was named with the front on the tip, where solving the train
+// gives −15 kN (the front axle's −100·3/7 kN added).
+func TestEnvelopeNamesAPositionGivingItsValue(t *testing.T) {
+	const P1, P2, span, tip = 100e3, 150e3, 7.0, 10.0
+	m := beam(tip, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: span, Kind: fem.Roller})
+	p, in := prepared(t, m)
+	tr := &Train{Axles: []Axle{{Load: P1}, {Load: P2, Spacing: 4.3}}, OffEnds: true, Direction: Forward}
+	const x = 5.0
+	e, err := in.Envelope(tr, p.Mesh(), []float64{x})
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := P2 * (span - (tip - 4.3)) / span
+	got, at := e.Max[2][0], e.MaxAt[2][0]
+	if !near(got, want, 1e-9) {
+		t.Fatalf("largest shear %.12g N, want %.12g N", got, want)
+	}
+	placed := tr.Model(m, at)
+	ex, err := fem.SolveExact(&placed)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if v := ex.At(x, fem.Right).ShearForce; !near(v, got, 1e-9) {
+		t.Errorf("largest shear %.12g N named at %v, where solving the train gives %.12g N", got, at, v)
+	}
+}

@@ -23,16 +23,27 @@ type extreme struct {
 // so far by more than a tie (fem.Beyond): of equal effects, round-off
 // apart, the first found (forward before backward, then along the run).
 func (e *extreme) most(v float64, at Placement) {
-	if !e.set || fem.Beyond(v, e.value) {
+	if e.takes(v, true) {
 		e.value, e.at, e.set = v, at, true
 	}
 }
 
 // least is most for the smallest.
 func (e *extreme) least(v float64, at Placement) {
-	if !e.set || fem.Beyond(e.value, v) {
+	if e.takes(v, false) {
 		e.value, e.at, e.set = v, at, true
 	}
+}
+
+// takes reports whether most (upper) or least would take v.
+func (e *extreme) takes(v float64, upper bool) bool {
+	switch {
+	case !e.set:
+		return true
+	case upper:
+		return fem.Beyond(v, e.value)
+	}
+	return fem.Beyond(e.value, v)
 }
 
 // scan folds into hi and lo (one per line of ls) the largest and smallest
@@ -126,6 +137,9 @@ func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
 				}
 				value := F.at(v)
 				at := Placement{r.direction, front}
+				if c < 2 && (hi[i].takes(value, true) || lo[i].takes(value, false)) {
+					at.Front = r.clearOfEnds(ls, front, a, b)
+				}
 				hi[i].most(value, at)
 				lo[i].least(value, at)
 			}
@@ -135,6 +149,33 @@ func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
 		r.scanJumps(ls, hi, lo, jumps)
 	}
 	r.scanMeetings(ls, hi, lo, jumps)
+}
+
+// clearOfEnds is front, an end of the stretch of positions from a to b,
+// moved into the stretch past where an axle the stretch holds off the
+// member stands on a member's end: a train placed there carries that
+// axle (Train.Model), the stretch's limit does not. The front moved by
+// four times the key tolerance gives the limit to round-off.
+func (r *run) clearOfEnds(ls *lines, front, a, b float64) float64 {
+	np := ls.pieces()
+	for k, ax := range r.axles {
+		bound := ls.bounds[0]
+		switch r.places[k] {
+		case 0:
+		case np + 1:
+			bound = ls.bounds[np]
+		default:
+			continue
+		}
+		if math.Abs(front+ax.offset-bound) <= r.tolerance {
+			d := min(4*r.tolerance, 0.5*(b-a))
+			if front == b {
+				d = -d
+			}
+			return front + d
+		}
+	}
+	return front
 }
 
 // A train of at most shortTrain axles is summed afresh on every stretch of
