@@ -23,16 +23,27 @@ type extreme struct {
 // so far by more than a tie (fem.Beyond): of equal effects, round-off
 // apart, the first found (forward before backward, then along the run).
 func (e *extreme) most(v float64, at Placement) {
-	if !e.set || fem.Beyond(v, e.value) {
+	if e.takes(v, true) {
 		e.value, e.at, e.set = v, at, true
 	}
 }
 
 // least is most for the smallest.
 func (e *extreme) least(v float64, at Placement) {
-	if !e.set || fem.Beyond(e.value, v) {
+	if e.takes(v, false) {
 		e.value, e.at, e.set = v, at, true
 	}
+}
+
+// takes reports whether most (upper) or least would take v.
+func (e *extreme) takes(v float64, upper bool) bool {
+	switch {
+	case !e.set:
+		return true
+	case upper:
+		return fem.Beyond(v, e.value)
+	}
+	return fem.Beyond(e.value, v)
 }
 
 // scan folds into hi and lo (one per line of ls) the largest and smallest
@@ -126,6 +137,9 @@ func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
 				}
 				value := F.at(v)
 				at := Placement{r.direction, front}
+				if c < 2 && (hi[i].takes(value, true) || lo[i].takes(value, false)) {
+					at.Front = r.clearOfEnds(ls, front, a, b)
+				}
 				hi[i].most(value, at)
 				lo[i].least(value, at)
 			}
@@ -134,6 +148,34 @@ func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
 	if len(jumps) > 0 {
 		r.scanJumps(ls, hi, lo, jumps)
 	}
+	r.scanMeetings(ls, hi, lo, jumps)
+}
+
+// clearOfEnds is front, an end of the stretch of positions from a to b,
+// moved into the stretch past where an axle the stretch holds off the
+// member stands on a member's end: a train placed there carries that
+// axle (Train.Model), the stretch's limit does not. The front moved by
+// four times the key tolerance gives the limit to round-off.
+func (r *run) clearOfEnds(ls *lines, front, a, b float64) float64 {
+	np := ls.pieces()
+	for k, ax := range r.axles {
+		bound := ls.bounds[0]
+		switch r.places[k] {
+		case 0:
+		case np + 1:
+			bound = ls.bounds[np]
+		default:
+			continue
+		}
+		if math.Abs(front+ax.offset-bound) <= r.tolerance {
+			d := min(4*r.tolerance, 0.5*(b-a))
+			if front == b {
+				d = -d
+			}
+			return front + d
+		}
+	}
+	return front
 }
 
 // A train of at most shortTrain axles is summed afresh on every stretch of
@@ -246,6 +288,11 @@ func (r *run) setKeys(keys []float64) {
 	if r.uniform {
 		r.offsets = append(r.offsets, r.u0, r.u1)
 	}
+	r.sortedOffsets = r.sortedOffsets[:0]
+	for _, ax := range r.axles {
+		r.sortedOffsets = append(r.sortedOffsets, ax.offset)
+	}
+	slices.Sort(r.sortedOffsets)
 	r.fixed = append(r.fixed[:0], r.s0)
 	for _, b := range keys {
 		r.fixed = r.within(r.fixed, b)
@@ -338,22 +385,93 @@ func (r *run) scanJumps(ls *lines, hi, lo []extreme, sides []fem.Side) {
 		default:
 			continue
 		}
-		at := Placement{r.direction, front}
-		for i := range ls.n {
-			base := 0.0
-			for b, other := range r.axles {
-				if b != a {
-					base += other.load * ls.valueOn(i, front+other.offset)
+		r.evaluate(ls, hi, lo, front, a, sides)
+	}
+}
+
+// scanMeetings evaluates the positions inside the run at which two loads
+// or more stand where the lines may jump at once: on a member's end, which
+// a train that drives off it (Train.OffEnds) crosses, its lines dropping
+// to zero beyond (from a free or elastic end's value, or a reaction's at
+// its support), or an axle on ls.at, with the sides given (none for a
+// reaction's line, which does not jump there). Either side of such a
+// position the loads stand on one side or the other of their jumps, so
+// that the stretches of positions either side end in limits that leave
+// out the position's own mix: an axle on a cantilever's tip and another
+// on the point read, both beyond it.
+func (r *run) scanMeetings(ls *lines, hi, lo []extreme, sides []fem.Side) {
+	if len(r.axles) < 2 {
+		return
+	}
+	first, last := r.s0, r.front(r.n-1)
+	points := append(r.jumpPoints[:0], ls.bounds[0], ls.bounds[ls.pieces()])
+	if len(sides) > 0 && ls.at > points[0]+r.tolerance && ls.at < points[1]-r.tolerance {
+		points = append(points, ls.at)
+	}
+	r.jumpPoints = points
+	for _, ax := range r.axles {
+		for _, p := range points {
+			front := p - ax.offset
+			if front <= first+r.tolerance || front >= last-r.tolerance {
+				continue // scan takes a run's ends with every load where it stands
+			}
+			meet := 0
+			for _, q := range points {
+				meet += r.axlesNear(q - front)
+			}
+			if meet < 2 {
+				continue
+			}
+			at := -1 // the axle on ls.at, if any
+			if len(sides) > 0 {
+				for b, other := range r.axles {
+					if math.Abs(front+other.offset-ls.at) <= r.tolerance {
+						at = b
+						break
+					}
 				}
 			}
-			if r.uniform {
-				base += r.q * (ls.integralOn(i, front+r.u1) - ls.integralOn(i, front+r.u0))
+			r.evaluate(ls, hi, lo, front, at, sides)
+		}
+	}
+}
+
+// axlesNear is the number of axles whose offset lies within the tolerance
+// of off.
+func (r *run) axlesNear(off float64) int {
+	i, _ := slices.BinarySearch(r.sortedOffsets, off-r.tolerance)
+	n := 0
+	for ; i < len(r.sortedOffsets) && r.sortedOffsets[i] <= off+r.tolerance; i++ {
+		n++
+	}
+	return n
+}
+
+// evaluate folds into hi and lo the effect of the train with its front at
+// front, every load where it stands (an axle on an end of the member on
+// it) but axle at (−1 for none), which stands on ls.at, on each of the
+// sides given.
+func (r *run) evaluate(ls *lines, hi, lo []extreme, front float64, at int, sides []fem.Side) {
+	place := Placement{r.direction, front}
+	for i := range ls.n {
+		base := 0.0
+		for b, other := range r.axles {
+			if b != at {
+				base += other.load * ls.valueOn(i, front+other.offset)
 			}
-			for _, side := range sides {
-				v := base + ax.load*ls.standing(i, side)
-				hi[i].most(v, at)
-				lo[i].least(v, at)
-			}
+		}
+		if r.uniform {
+			base += r.q * (ls.integralOn(i, front+r.u1) - ls.integralOn(i, front+r.u0))
+		}
+		if at < 0 {
+			hi[i].most(base, place)
+			lo[i].least(base, place)
+			continue
+		}
+		for _, side := range sides {
+			v := base + r.axles[at].load*ls.standing(i, side)
+			hi[i].most(v, place)
+			lo[i].least(v, place)
 		}
 	}
 }

@@ -380,10 +380,13 @@ type run struct {
 	// an axle or an end of the uniform load passes a key point (setKeys).
 	breaks, fixed, moving, offsets, keys []float64
 	candidates                           []float64
-	places                               []int
-	axleTerms, uniformTerms              []poly
-	short                                []bool
-	tolerance                            float64 // round-off within which a front that puts an axle on a point is on the run, m
+	// sortedOffsets are the axles' offsets in order (setKeys), jumpPoints
+	// the points where scanMeetings looks for loads meeting.
+	sortedOffsets, jumpPoints []float64
+	places                    []int
+	axleTerms, uniformTerms   []poly
+	short                     []bool
+	tolerance                 float64 // round-off within which a front that puts an axle on a point is on the run, m
 }
 
 // runs are t's positions on a member of length L with the given step (0
