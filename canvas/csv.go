@@ -59,9 +59,12 @@ const (
 	csvRows          = 100_000
 	// CSVMaxPoints bounds the intervals per element a table may ask for.
 	CSVMaxPoints = 1000
-	// CSVMaxRows bounds the rows of a table, about 300 bytes each: 600 MB
-	// at most (1,000 intervals in each of 100,000 elements, 1e8 rows, had
-	// streamed 3.4 GB to disk after 25 s, of some 30 GB).
+	// CSVMaxRows bounds the rows of a table that samples its elements
+	// inside, about 300 bytes each: 600 MB at most (1,000 intervals in each
+	// of 100,000 elements, 1e8 rows, had streamed 3.4 GB to disk after
+	// 25 s, of some 30 GB). The ends of every element alone, the mesh's own
+	// table, are written on any mesh: the mesh is the user's, the table
+	// streams.
 	CSVMaxRows = 2_000_000
 )
 
@@ -83,7 +86,8 @@ func DefaultCSVPoints(elements int) int {
 // left, so jumps show as two rows at one x. The table is streamed: it is
 // formatted in chunks of elements walked in order (fem.Solution.Elements),
 // into a few reused buffers, so memory does not grow with the mesh. A
-// table of more than CSVMaxRows rows is refused before anything is written.
+// table of more than CSVMaxRows rows that samples inside its elements is
+// refused before anything is written.
 func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perElement int, notes []string) error {
 	if s == nil {
 		return fmt.Errorf("canvas: there are no results to write: solve the model first")
@@ -91,13 +95,9 @@ func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perEle
 	if perElement < 1 || perElement > CSVMaxPoints {
 		return fmt.Errorf("canvas: %d points per element: use from 1 to %d", perElement, CSVMaxPoints)
 	}
-	if elements := len(s.Mesh.Elements); elements*(perElement+1) > CSVMaxRows {
-		fit := fmt.Sprintf("a mesh of at most %d elements", CSVMaxRows/2)
-		if k := CSVMaxRows/elements - 1; k >= 1 {
-			fit = fmt.Sprintf("at most %d intervals per element", k)
-		}
-		return fmt.Errorf("canvas: the table would have %d rows (%d elements at %d points each), more than the %d a table holds: ask for %s",
-			elements*(perElement+1), elements, perElement+1, CSVMaxRows, fit)
+	if elements := len(s.Mesh.Elements); perElement > 1 && elements*(perElement+1) > CSVMaxRows {
+		return fmt.Errorf("canvas: the table would have %d rows (%d elements at %d points each), more than the %d a table sampled inside its elements holds: ask for at most %s per element",
+			elements*(perElement+1), elements, perElement+1, CSVMaxRows, units.Count(max(1, CSVMaxRows/elements-1), "interval"))
 	}
 	if u.Name == "" {
 		u = units.SI

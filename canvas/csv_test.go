@@ -212,4 +212,12 @@ func TestWriteCSVRefusesHugeTables(t *testing.T) {
 	if n != 0 {
 		t.Errorf("a refused table wrote %d bytes", n)
 	}
+	// The mesh's own table, the ends of each element, is written on any
+	// mesh (it streams): one of more than CSVMaxRows/2 elements was
+	// refused, which left a mesh of a million elements without a table.
+	big := solved(t, demoModel(CSVMaxRows/2+10))
+	n = 0
+	if err := WriteCSV(&n, big.Solution, nil, units.SI, 1, nil); err != nil || n == 0 {
+		t.Errorf("the table of %d elements' ends: %v, %d bytes", len(big.Solution.Mesh.Elements), err, n)
+	}
 }
