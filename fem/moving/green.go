@@ -244,8 +244,37 @@ func (s *sweeps) initial() basis {
 }
 
 // degenerate is the size, relative to the basis, below which a restraint
-// finds nothing left to restrain: the member is a mechanism there.
+// finds nothing left to restrain: the member is a mechanism there. After a
+// stretch shorter than shortStretch of the member the size is taken
+// relative to what the stretch can make of the basis (degenerateAfter).
 const degenerate = 1e-12
+
+// shortStretch is the length, relative to the member, below which a
+// stretch just crossed scales the degeneracy test (as the exact solution's
+// Taylor unknowns take over below the same share, fem's taylorLength).
+const shortStretch = 1e-3
+
+// degenerateAfter is the degeneracy threshold of a restraint of state
+// component row at key point k, reached going dir: over a stretch τ of the
+// member long, a basis whose components lower in the state than the row
+// were restrained at its other end (a fixed end, a support just before)
+// reaches it only through the forces, as τ^p with p the row's distance
+// from V (ŵ ~ V̂·τ³, θ ~ V̂·τ², M̂ ~ V̂·τ): three rollers 10⁻⁶ of the
+// member apart left the last a deflection of about τ²/2 = 5e-13, which
+// the fixed threshold took for a mechanism that fem solves.
+func (s *sweeps) degenerateAfter(k int, dir float64, row int) float64 {
+	K := len(s.keys) - 1
+	tau := 1.0
+	switch {
+	case dir > 0 && k > 0:
+		tau = (s.keys[k] - s.keys[k-1]) / s.length
+	case dir < 0 && k < K:
+		tau = (s.keys[k+1] - s.keys[k]) / s.length
+	}
+	short := min(1, tau/shortStretch)
+	p := s.d - 1 - row // V (bar: N) is the last component
+	return degenerate * math.Pow(short, float64(p))
+}
 
 // cross carries the basis z across key point k, from left to right (dir 1)
 // or right to left (dir −1). It returns the new basis and the map of its
@@ -278,7 +307,7 @@ func (s *sweeps) cross(z basis, k int, dir float64) (basis, mat2, error) {
 		} else {
 			z0, z1 := z[0][a.row], z[1][a.row]
 			n := math.Hypot(z0, z1)
-			if n < degenerate {
+			if n < s.degenerateAfter(k, dir, a.row) {
 				return z, m, s.mechanism(k)
 			}
 			c0, c1 := z1/n, -z0/n
