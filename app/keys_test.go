@@ -449,15 +449,23 @@ func TestEscapeFromPropertiesToDrawing(t *testing.T) {
 // did nothing, so the keyboard reached the confirm button only by Tab and
 // Space.
 func TestFormDialogsByKeyboard(t *testing.T) {
+	// Each types into the first field (typed, "" to leave it), so that a
+	// dialog that Enter closed without doing what its button does shows.
 	dialogs := []struct {
-		name string
-		show func(w *Window)
-		done func(w *Window) bool // what the confirm button does, done
+		name  string
+		show  func(w *Window)
+		typed string
+		done  func(w *Window) bool // what the confirm button does, done
 	}{
-		{"add a load case", func(w *Window) { w.addCase() }, func(w *Window) bool { return len(w.canonicalModel().Cases) == 4 }},
-		{"rename the load case", func(w *Window) { w.renameCase() }, func(w *Window) bool { return true }},
-		{"check limits", func(w *Window) { w.showCheckLimits() }, func(w *Window) bool { return true }},
-		{"adaptive refinement", func(w *Window) { w.runAdaptive() }, func(w *Window) bool { return w.study != 0 || w.adaptNodes != nil }},
+		{"add a load case", func(w *Window) { w.addCase() }, "wind", func(w *Window) bool {
+			cs := w.canonicalModel().Cases
+			return len(cs) == 4 && cs[3].Name == "wind"
+		}},
+		{"rename the load case", func(w *Window) { w.renameCase() }, "renamed", func(w *Window) bool {
+			return w.canonicalModel().Cases[w.editCase].Name == "renamed"
+		}},
+		{"check limits", func(w *Window) { w.showCheckLimits() }, "250", func(w *Window) bool { return w.project.View.DeflectionLimit == 250 }},
+		{"adaptive refinement", func(w *Window) { w.runAdaptive() }, "", func(w *Window) bool { return w.study != 0 || w.adaptNodes != nil }},
 	}
 	for _, d := range dialogs {
 		w, q := openTestdata(t, "two_span_cases.json", laptop)
@@ -471,6 +479,9 @@ func TestFormDialogsByKeyboard(t *testing.T) {
 		if !ok {
 			t.Errorf("%s: the dialog opens with the focus on %T, want its first field", d.name, c.Focused())
 			continue
+		}
+		if d.typed != "" {
+			e.SetText(d.typed)
 		}
 		e.TypedKey(&fyne.KeyEvent{Name: fyne.KeyReturn})
 		if c.Overlays().Top() != nil || !d.done(w) {

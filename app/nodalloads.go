@@ -111,7 +111,9 @@ func elementLoadLines(nl *fem.NodalLoads, i int, u units.System) []string {
 	}
 	if e.Shear == 0 {
 		lines = append(lines,
-			fmt.Sprintf("%s, consistent loads fᵢ = ∫₀ʰ Nᵢ(x)·q(x) dx with the cubic Hermite shape functions Nᵢ:", capitalize(nl.Beam)),
+			// The element of a segment without shear deformation, also in
+			// a member whose other segments have it (nl.Beam names both).
+			"Hermite beam element, consistent loads fᵢ = ∫₀ʰ Nᵢ(x)·q(x) dx with the cubic Hermite shape functions Nᵢ:",
 			fmt.Sprintf("F₁ = h·(7q₁ + 3q₂)/20 = %s %s × (7 × %s + 3 × %s) %s / 20 = %s", hs, lengthU, q1, q2, loadU, f(units.Force, e.Beam[0])),
 			fmt.Sprintf("M₁ = h²·(3q₁ + 2q₂)/60 = (%s %s)² × (3 × %s + 2 × %s) %s / 60 = %s", hs, lengthU, q1, q2, loadU, f(units.Moment, e.Beam[1])),
 			fmt.Sprintf("F₂ = h·(3q₁ + 7q₂)/20 = %s %s × (3 × %s + 7 × %s) %s / 20 = %s", hs, lengthU, q1, q2, loadU, f(units.Force, e.Beam[2])),

@@ -122,3 +122,21 @@ func TestElementLoadLinesShearDeformation(t *testing.T) {
 		}
 	}
 }
+
+// In a member of segments with and without shear deformation (its beam
+// element named "Hermite and Timoshenko beam"), an element without it is
+// written out as the Hermite element it is: the Hermite formulas were put
+// under the name of both elements. (The window's own wording; no check
+// value of its own.)
+func TestElementLoadLinesNameTheElementOfTheirSegment(t *testing.T) {
+	const h, q = 1.5, -2000.0
+	for _, beam := range []string{"Hermite beam", "Hermite and Timoshenko beam"} {
+		nl := &fem.NodalLoads{Bar: "linear bar", Beam: beam, BarOrder: fem.LinearBar,
+			Elements: []fem.ElementLoad{{Start: 0, End: h, Transverse: [2]float64{q, q},
+				Beam: [4]float64{q * h / 2, q * h * h / 12, q * h / 2, -q * h * h / 12}, Lumped: [2]float64{0, q * h / 2}}}}
+		text := strings.Join(elementLoadLines(nl, 0, units.SI), "\n")
+		if !strings.Contains(text, "Hermite beam element, consistent loads") || strings.Contains(text, "Timoshenko") {
+			t.Errorf("member of %ss: an element without shear deformation is written out as\n%s", beam, text)
+		}
+	}
+}

@@ -87,7 +87,7 @@ type movingWindow struct {
 	worst    []moving.Extreme
 	at       moving.Placement
 	current  []float64
-	seq      uint64 // of the newest envelope asked for
+	seq      uint64 // of the newest change followed: an envelope asked for before it is stale
 }
 
 // shownNumber is a number the form wrote: its text, and the value (SI)
@@ -554,8 +554,12 @@ func (mw *movingWindow) deleteTrain() {
 // modelChanged works out the member's influence lines again and, in the
 // background, the shown train's envelope.
 func (mw *movingWindow) modelChanged() {
+	// Whatever changed, an envelope asked for before is stale, also when
+	// none is asked for now (no train left, no influence lines, a train
+	// that does not fit): it would be taken for the train shown.
+	mw.seq++
 	mw.refreshChoices()
-	mw.member, mw.infl, mw.env = nil, nil, nil
+	mw.member, mw.infl, mw.env, mw.combined = nil, nil, nil, nil
 	// The member as files and the command line have it, every load in
 	// its case; one the window still lets be refused (a case not yet
 	// given loads) has the same lines without its loads.
@@ -584,7 +588,6 @@ func (mw *movingWindow) modelChanged() {
 		mw.status.SetText(err.Error())
 		return
 	}
-	mw.seq++
 	seq, infl, mesh, index, with := mw.seq, mw.infl, mw.mesh, mw.index, mw.with
 	go func() {
 		env, err := infl.Envelope(&t, mesh, nil)

@@ -8,6 +8,7 @@ import (
 	"slices"
 	"strconv"
 	"strings"
+	"sync/atomic"
 	"testing"
 
 	"fyne.io/fyne/v2"
@@ -443,5 +444,31 @@ func TestTrainFormNamesItsUnits(t *testing.T) {
 				t.Errorf("%s units: no label %q in the train's form", sys.Name, want)
 			}
 		}
+	}
+}
+
+// An envelope asked for in the background and not yet back when its train
+// is deleted is dropped when it comes: deleting the file's last train
+// while the envelope of the train before it was still being found took
+// that envelope for the shown train's and indexed the trains at −1 (a
+// panic). Every change the window follows makes the envelopes asked for
+// before it stale, also when it asks for none (no train left, influence
+// lines refused, a train that does not fit).
+func TestMovingWindowDropsTheEnvelopeOfADeletedTrain(t *testing.T) {
+	w, q, mw := runwayWindow(t)
+	if len(w.project.Trains) != 2 {
+		t.Fatalf("runway.json has %d trains, want 2", len(w.project.Trains))
+	}
+	var asked atomic.Int32
+	w.post = func(f func()) { asked.Add(1); q.post(f) }
+	mw.deleteTrain() // asks for the envelope of the other train
+	mw.deleteTrain() // the last: no train to ask for
+	q.waitFor(t, "the envelope asked for before the last train went", func() bool { return asked.Load() >= 1 })
+	q.drain()
+	if mw.env != nil || mw.index != -1 {
+		t.Errorf("with no train left the window shows train %d's envelope (%v)", mw.index, mw.env != nil)
+	}
+	if got := mw.status.Text; !strings.Contains(got, "no train yet") {
+		t.Errorf("status %q, want it to say there is no train yet", got)
 	}
 }

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"regexp"
+	"slices"
 	"strings"
 	"testing"
 
@@ -235,5 +236,47 @@ func TestCrowdedReactionsStayBelowTheMember(t *testing.T) {
 	}
 	if labelled == 0 {
 		t.Error("no reaction is labelled at all")
+	}
+}
+
+// Whether a support stands crowded by another is a matter of where they
+// stand, not of the order the file lists them in: three fixed supports
+// about 24 px apart (not crowded) listed from right to left were each
+// taken for crowded by the one listed next to them, their labels made
+// optional, and three of the nine reaction labels were dropped. The
+// member is demo data; the check is the drawing's own invariance under
+// the order of the supports (no check value of its own).
+func TestReactionLabelsIgnoreTheSupportsOrder(t *testing.T) {
+	reactionTexts := func(s *Scene) []string {
+		var out []string
+		for _, it := range s.Items {
+			if it.Kind == Text && (strings.HasPrefix(it.Text, "Rx ") || strings.HasPrefix(it.Text, "Ry ") || strings.HasPrefix(it.Text, "Mr ")) {
+				out = append(out, it.Text)
+			}
+		}
+		slices.Sort(out)
+		return out
+	}
+	draw := func(xs []float64) []string {
+		m := demoModel(0)
+		m.Supports = nil
+		for _, x := range xs {
+			m.Supports = append(m.Supports, fem.Support{X: x, Kind: fem.Fixed})
+		}
+		v := NewView(600, 700)
+		v.Fit(m)
+		return reactionTexts(Build(solved(t, m), v))
+	}
+	want := draw([]float64{0, 0.25, 0.5, 4.5})
+	for _, tc := range []struct {
+		name string
+		xs   []float64
+	}{
+		{"right to left", []float64{4.5, 0.5, 0.25, 0}},
+		{"shuffled", []float64{0.25, 4.5, 0, 0.5}},
+	} {
+		if got := draw(tc.xs); !slices.Equal(got, want) {
+			t.Errorf("supports listed %s: reaction labels %q, listed left to right %q", tc.name, got, want)
+		}
 	}
 }

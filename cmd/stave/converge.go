@@ -43,10 +43,10 @@ func convergeCommand(args []string, stdout io.Writer) error {
 	ctx := context.Background()
 	table, err := study.Convergence(ctx, &p.Model, *maxPer)
 	if tf := (study.TooFineError{}); errors.As(err, &tf) {
-		if tf.Fits >= 1 {
-			return usageError{fmt.Sprintf("--max %d: %s: %v: give --max %d or less", *maxPer, path, err, tf.Fits)}
+		if tf.Fits < 1 {
+			return usageError{fmt.Sprintf("--max %d: %s: %v", *maxPer, path, err)}
 		}
-		return usageError{fmt.Sprintf("--max %d: %s: %v", *maxPer, path, err)}
+		return usageError{fmt.Sprintf("--max %d: %s: the study's finest mesh, %d elements per stretch, would not fit in memory: give --max %d or less", *maxPer, path, tf.Finest, tf.Fits)}
 	}
 	if err != nil {
 		return modelError{fmt.Errorf("%s: %w", path, err)}

@@ -69,7 +69,7 @@ func influenceCommand(args []string, stdout io.Writer) error {
 	case *sheet != "" && n == 0:
 		return usageError{fmt.Sprintf("--sheet: %s has no train to put on a sheet: add one under \"trains\" (docs/format.md)", path)}
 	case set(fs, "train") && *train > n:
-		return usageError{fmt.Sprintf("--train %d: %s has %d trains; count them from 1 along the file", *train, path, n)}
+		return usageError{fmt.Sprintf("--train %d: %s has %s; count them from 1 along the file", *train, path, units.Count(n, "train"))}
 	}
 	r, err := report.Influence(p, report.InfluenceRequest{Target: target, Points: *points, FiniteElements: true, Envelope: *envelope || *out != "" || *sheet != ""})
 	if err != nil {
@@ -160,7 +160,7 @@ func strayFlags(fs *flag.FlagSet, t moving.Target) error {
 func onMember(t moving.Target, at string, m *fem.Model, sys units.System) error {
 	if t.Reaction {
 		if t.Support < 0 || t.Support >= len(m.Supports) {
-			return fmt.Errorf("--support %d: the member has %d supports", t.Support+1, len(m.Supports))
+			return fmt.Errorf("--support %d: the member has %s; count them from 1 along the file", t.Support+1, units.Count(len(m.Supports), "support"))
 		}
 		sup := m.Supports[t.Support]
 		if !sup.Holds(t.Motion) {

@@ -267,6 +267,8 @@ func TestInfluenceCommandMisuse(t *testing.T) {
 		{[]string{"../../testdata/simply_supported_uniform.json", "--quantity", "M", "--at", "2 kips"}, 2, "--at: '2 kips' is a force, but position is expected here"},
 		{[]string{"../../testdata/simply_supported_uniform.json", "--units", "US", "--quantity", "reaction", "--support", "2", "--motion", "rotation"}, 2, "support 2 (roller at x = 13.12 ft) does not hold the rotation"},
 		{[]string{"../../testdata/demo.json", "--quantity", "reaction", "--support", "9"}, 2, "--support 9: the member has"},
+		// One support is "1 support", not "1 supports".
+		{[]string{"../../testdata/cantilever_tip_load.json", "--quantity", "reaction", "--support", "2"}, 2, "--support 2: the member has 1 support;"},
 		{[]string{"../../testdata/moving/runway.json", "--quantity", "M", "--at", "1", "--train", "3"}, 2, "--train 3: ../../testdata/moving/runway.json has 2 trains"},
 		{[]string{"../../testdata/simply_supported_uniform.json", "--quantity", "M", "--at", "1", "--sheet", "x.pdf"}, 2, "has no train to put on a sheet"},
 		{[]string{"../../testdata/demo.json", "--quantity", "M", "--at", "1", "--support", "2"}, 2, "--support is for a reaction"},

@@ -36,6 +36,7 @@ import (
 	"math"
 
 	"stave/fem"
+	"stave/fem/units"
 )
 
 // Row is one mesh of a convergence table.
@@ -121,11 +122,7 @@ func Convergence(ctx context.Context, m *fem.Model, maxPerStretch int) (Table, e
 		for fit >= 1 && fits(m, fit, len(keys)-1) != nil {
 			fit /= 2
 		}
-		err = fmt.Errorf("convergence study, the finest mesh of %d elements per stretch: %w", finest, err)
-		if fit >= 1 {
-			err = fmt.Errorf("%w; a study up to %d elements per stretch fits", err, fit)
-		}
-		return Table{}, TooFineError{Err: err, Fits: fit}
+		return Table{}, TooFineError{Finest: finest, Fits: fit, Err: err}
 	}
 	var t Table
 	for k := 1; k <= maxPerStretch; k *= 2 {
@@ -246,14 +243,23 @@ func Subdivide(nodes []float64, k int) []float64 {
 
 // TooFineError is the refusal of a study whose finest mesh, as asked for,
 // would not fit in memory: the request is at fault, not the model, which a
-// coarser study takes. Fits is the finest study that fits, in elements
-// per stretch (a power of two), or 0 when not even one element does.
+// coarser study takes. Its message says how fine a study may go, not what
+// the loader's refusal (Err) advises for a model's own mesh (fewer
+// elements, a longer maximum element length), which does not bear on it.
 type TooFineError struct {
-	Err  error
-	Fits int
+	Finest int   // elements per stretch of the finest mesh asked for
+	Fits   int   // the finest that fits, a power of two; 0 for none
+	Err    error // the loader's refusal of the finest mesh
 }
 
-func (e TooFineError) Error() string { return e.Err.Error() }
+func (e TooFineError) Error() string {
+	fit := "not even 1 element per stretch fits"
+	if e.Fits > 0 {
+		fit = fmt.Sprintf("a study up to %s per stretch fits", units.Count(e.Fits, "element"))
+	}
+	return fmt.Sprintf("convergence study, the finest mesh of %d elements per stretch: it would not fit in memory; %s", e.Finest, fit)
+}
+
 func (e TooFineError) Unwrap() error { return e.Err }
 
 // fits refuses k elements on each of n stretches when the analysis of
