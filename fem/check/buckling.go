@@ -258,7 +258,11 @@ func bucklingChecks(p *Probe, o Options) []Result {
 		if stepped {
 			r.Message += "The section changes along this part: the smallest EI (and G·As) is used, which is conservative. "
 		}
-		r.Message += "The Euler load is an upper bound for a perfectly straight elastic column bent in the member's plane; real columns fail below it (initial crookedness, yielding), which design codes allow for with column curves. Buckling out of the plane, about the weak axis, or lateral-torsional buckling is not checked."
+		bound := "The Euler load"
+		if !math.IsInf(shear, 1) {
+			bound = "The critical load"
+		}
+		r.Message += bound + " is an upper bound for a perfectly straight elastic column bent in the member's plane; real columns fail below it (initial crookedness, yielding), which design codes allow for with column curves. Buckling out of the plane, about the weak axis, or lateral-torsional buckling is not checked."
 		out = append(out, r)
 	}
 	return out

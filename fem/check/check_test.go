@@ -489,6 +489,10 @@ func TestBucklingOfAColumnThatDeformsInShear(t *testing.T) {
 		if got := strings.Contains(r.Message, "shear"); got != (c.gas > 0) {
 			t.Errorf("%s: the message speaks of shear: %v, want %v: %s", c.name, got, c.gas > 0, r.Message)
 		}
+		// The bound it closes with is the load it checked against.
+		if got := strings.Contains(r.Message, "The Euler load is an upper bound"); got == (c.gas > 0) {
+			t.Errorf("%s: the message calls the Euler load the bound: %v, want %v: %s", c.name, got, c.gas == 0, r.Message)
+		}
 		if status := map[bool]Status{true: Fail, false: Pass}[P > want]; r.Status != status {
 			t.Errorf("%s: N/Pcr = %.3f, status %v, want %v", c.name, P/want, r.Status, status)
 		}
