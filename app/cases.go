@@ -341,7 +341,7 @@ func (w *Window) deleteCase() {
 			var kept []fem.CaseFactor
 			for _, f := range cb.Factors {
 				if f.Case != k {
-					f.Case -= min(max(f.Case-k, 0), 1)
+					f.Case = afterDeletion(f.Case, k)
 					kept = append(kept, f)
 				}
 			}
@@ -396,13 +396,22 @@ func withoutTrain(combos []fem.Combination, t int) []fem.Combination {
 		cb.Trains = nil
 		for _, f := range combos[i].Trains {
 			if f.Train != t {
-				f.Train -= min(max(f.Train-t, 0), 1)
+				f.Train = afterDeletion(f.Train, t)
 				cb.Trains = append(cb.Trains, f)
 			}
 		}
 		out[i] = cb
 	}
 	return out
+}
+
+// afterDeletion is index i of a list, other than k, once item k is
+// deleted from it: one lower past k.
+func afterDeletion(i, k int) int {
+	if i > k {
+		return i - 1
+	}
+	return i
 }
 
 // shownAfterDeletion is what to show of after, the model before with case
@@ -415,7 +424,7 @@ func shownAfterDeletion(s analysis.Show, k int, before, after fem.Model) analysi
 		if s.Index == k || len(after.Cases) == 0 {
 			return envelope
 		}
-		return analysis.Show{Kind: analysis.ShowCase, Index: s.Index - min(max(s.Index-k, 0), 1)}
+		return analysis.Show{Kind: analysis.ShowCase, Index: afterDeletion(s.Index, k)}
 	case analysis.ShowCombination:
 		was := before.EnvelopeCombinations()
 		if s.Index < 0 || s.Index >= len(was) {
