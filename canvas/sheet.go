@@ -319,7 +319,7 @@ func (sh *sheet) modelTable(m *fem.Model) {
 		rows = append(rows, [2]string{"self-weight", fmt.Sprintf("g = (%s, %s)", f(units.Acceleration, m.Gravity[0]), f(units.Acceleration, m.Gravity[1]))})
 	}
 	if m.TemperatureChange != 0 {
-		rows = append(rows, [2]string{"temperature", f(units.TemperatureChange, m.TemperatureChange)})
+		rows = append(rows, [2]string{"temperature change", f(units.TemperatureChange, m.TemperatureChange)})
 	}
 	limit := 3 * sheetRows
 	for i, r := range rows {

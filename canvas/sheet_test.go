@@ -123,8 +123,11 @@ func TestSheetGivesTheMaterialValuesTheLoadsUse(t *testing.T) {
 		{"rod under its own weight, SI", rod, units.SI, []string{"density 7850 kg/m³; allowable stress 250.0 MPa"}, []string{"thermal expansion"}},
 		// 7850 / 16.01846 = 490.06 lb/ft³; 250 / 6.894757 = 36.26 ksi.
 		{"rod under its own weight, US", rod, units.USCustomary, []string{"density 490.1 lb/ft³; allowable stress 36.26 ksi"}, []string{"thermal expansion"}},
-		// 12e-6 /K × 5/9 = 6.667e-6 /°F.
-		{"heated bar, US", heated, units.USCustomary, []string{"thermal expansion 6.667e-06 1/°F; allowable stress 36.26 ksi"}, []string{"density"}},
+		// 12e-6 /K × 5/9 = 6.667e-6 /°F. The warming of 30 K is a change
+		// of temperature, 54 °F (a change of 1 °F is 5/9 K, no offset: NIST
+		// SP 811, Appendix B), and the row says so: "temperature -20 °F"
+		// reads as a temperature.
+		{"heated bar, US", heated, units.USCustomary, []string{"thermal expansion 6.667e-06 1/°F; allowable stress 36.26 ksi", "\ntemperature change\n54.00 °F\n"}, []string{"density"}},
 		// A settlement is a load too: 25.4 mm is 1 in exactly.
 		{"settled support, US", settled, units.USCustomary, []string{"roller at 13.12 ft; settles 0 in, -1.000 in, 0 rad"}, []string{"density", "thermal expansion"}},
 	} {

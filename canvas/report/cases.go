@@ -414,7 +414,7 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 			marks = append(marks, "self-weight")
 		}
 		if c.TemperatureChange != 0 {
-			marks = append(marks, "temperature "+u.Format(units.TemperatureChange, c.TemperatureChange))
+			marks = append(marks, "temperature change "+u.Format(units.TemperatureChange, c.TemperatureChange))
 		}
 		if c.Settlements {
 			marks = append(marks, "settlements")

@@ -293,3 +293,18 @@ func TestExportDrawsTheLoadsOfACase(t *testing.T) {
 		}
 	}
 }
+
+// A case that warms the member says by how much as a change of
+// temperature, in the display units: -20 °F is a change of -100/9 K (a
+// change of 1 °F is 5/9 K, no offset: NIST SP 811, Appendix B), and
+// "temperature -20.00 °F" would read as the air's temperature.
+func TestCasesTextNamesTheTemperatureChange(t *testing.T) {
+	r := &CasesJSON{Cases: []CaseJSON{{Name: "winter", TemperatureChange: -20 * 5.0 / 9}}}
+	var text bytes.Buffer
+	WriteCasesText(&text, "model.json", r, units.USCustomary)
+	if !slices.ContainsFunc(strings.Split(text.String(), "\n"), func(l string) bool {
+		return strings.HasPrefix(strings.TrimSpace(l), "winter ") && strings.HasSuffix(l, "temperature change -20.00 °F")
+	}) {
+		t.Errorf("the text does not give case winter's temperature change as -20.00 °F:\n%s", text.String())
+	}
+}

@@ -98,7 +98,10 @@ type Result struct {
 	Span    [2]float64
 	Value   float64 // the checked value, SI (stress Pa, deflection m, force N...)
 	Limit   float64 // what Value is checked against, SI
-	Unit    string  // the SI unit of Value and Limit; "" for a ratio
+	// SpanRatio is n of a deflection check's limit span/n, as the options
+	// give it (Limit is the span over it); 0 for the other checks.
+	SpanRatio float64
+	Unit      string // the SI unit of Value and Limit; "" for a ratio
 	// Exact says Value is read from the exact solution; FE and FEX are then
 	// the finite element value and where it is (m), for the checks that read
 	// a peak or a handbook quantity (HasFE).

@@ -155,7 +155,7 @@ func deflectionChecks(p *Probe, o Options) []Result {
 		if st.ground {
 			r.Name += ", on a foundation"
 		}
-		r.Limit = length / n
+		r.Limit, r.SpanRatio = length/n, n
 		r.Status = Pass
 		if r.Value > r.Limit {
 			r.Status = Fail

@@ -465,3 +465,30 @@ func analysed(t *testing.T, name string) report.Source {
 	}
 	return src
 }
+
+// The limit ratio is the n the deflection check uses, not the span over
+// the limit span/n worked back: on a span of 20 ft (6.096 m, 1 ft =
+// 0.3048 m, NIST SP 811, Appendix B) 6.096/(6.096/360) is
+// 359.99999999999994 in floating point, which the CSV and JSON printed
+// for the file's deflection_limit 360.
+func TestLimitRatioIsTheFilesN(t *testing.T) {
+	text, err := os.ReadFile("../../../testdata/simply_supported_uniform.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	span := strings.NewReplacer(`"end": 4,`, `"end": 6.096,`, `"x": 4,`, `"x": 6.096,`).Replace(string(text))
+	if span == string(text) {
+		t.Fatal("the test file no longer has its span at 4 m")
+	}
+	for _, n := range []float64{360, 180} {
+		file := filepath.Join(t.TempDir(), "twenty_feet.json")
+		model := strings.Replace(span, `"deflection_limit": 360`, fmt.Sprintf(`"deflection_limit": %g`, n), 1)
+		if err := os.WriteFile(file, []byte(model), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		lines, _ := runAll(t, []string{file}, Options{})
+		if d := lines[0].Deflection; d == nil || d.LimitRatio != n {
+			t.Errorf("deflection_limit %g on a 6.096 m span: line %+v, want limit ratio %g exactly", n, d, n)
+		}
+	}
+}

@@ -128,7 +128,7 @@ func Line(file string, p *storage.Project, a *analysis.Analysis) Member {
 		if strings.HasPrefix(r.Name, deflectionCheck) && (m.Deflection == nil || u.Utilisation > m.Deflection.Utilisation) {
 			span := r.Span[1] - r.Span[0]
 			m.Deflection = &Deflection{Check: u, Deflection: r.Value, Span: span,
-				Ratio: Ratio(span / r.Value), LimitRatio: span / r.Limit}
+				Ratio: Ratio(span / r.Value), LimitRatio: r.SpanRatio}
 		}
 	}
 	return m
