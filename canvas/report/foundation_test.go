@@ -49,23 +49,31 @@ type foundationDoc struct {
 // its solve text.
 func solveProject(t *testing.T, p *storage.Project) (foundationDoc, string) {
 	t.Helper()
+	var doc foundationDoc
+	src := solveInto(t, p, &doc)
+	if src.Analysis.Solution == nil {
+		t.Fatalf("not solved: %v", src.Findings)
+	}
+	var text bytes.Buffer
+	WriteSolveText(&text, "model.json", src)
+	return doc, text.String()
+}
+
+// solveInto analyses p and reads its solve --json document into doc.
+func solveInto(t *testing.T, p *storage.Project, doc any) Source {
+	t.Helper()
 	src, err := Analyse(context.Background(), p)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if src.Analysis.Solution == nil {
-		t.Fatalf("not solved: %v", src.Findings)
-	}
-	var js, text bytes.Buffer
+	var js bytes.Buffer
 	if err := WriteSolveJSON(&js, "model.json", src); err != nil {
 		t.Fatal(err)
 	}
-	var doc foundationDoc
-	if err := json.Unmarshal(js.Bytes(), &doc); err != nil {
+	if err := json.Unmarshal(js.Bytes(), doc); err != nil {
 		t.Fatal(err)
 	}
-	WriteSolveText(&text, "model.json", src)
-	return doc, text.String()
+	return src
 }
 
 // groundProject is a free beam of length L and bending stiffness EI
@@ -216,14 +224,6 @@ func TestCasesReportTheGround(t *testing.T) {
 		{Name: "ULS", Kind: fem.Strength, Factors: []fem.CaseFactor{{Case: 0, Factor: 1.35}, {Case: 1, Factor: 1.5}}},
 		{Name: "G only", Kind: fem.Strength, Factors: []fem.CaseFactor{{Case: 0, Factor: 1}}},
 	}
-	src, err := Analyse(context.Background(), p)
-	if err != nil {
-		t.Fatal(err)
-	}
-	var js bytes.Buffer
-	if err := WriteSolveJSON(&js, "model.json", src); err != nil {
-		t.Fatal(err)
-	}
 	type ground struct {
 		Foundations []struct{ Transverse struct{ Value, FE float64 } }
 	}
@@ -239,9 +239,7 @@ func TestCasesReportTheGround(t *testing.T) {
 			}
 		}
 	}
-	if err := json.Unmarshal(js.Bytes(), &doc); err != nil {
-		t.Fatal(err)
-	}
+	src := solveInto(t, p, &doc)
 	for _, c := range []struct {
 		name string
 		got  []ground
@@ -292,21 +290,11 @@ func TestEnvelopeOfNoSupportsIsAnEmptyList(t *testing.T) {
 		{Name: "permanent", DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: L, Intensity: -10e3}}}}},
 		{Name: "imposed", PointLoads: []fem.PointLoad{{X: 3, Transverse: -50e3}}},
 	}
-	src, err := Analyse(context.Background(), p)
-	if err != nil {
-		t.Fatal(err)
-	}
-	var js bytes.Buffer
-	if err := WriteSolveJSON(&js, "model.json", src); err != nil {
-		t.Fatal(err)
-	}
 	var doc struct {
 		Reactions json.RawMessage
 		Envelope  struct{ Reactions, Foundations json.RawMessage }
 	}
-	if err := json.Unmarshal(js.Bytes(), &doc); err != nil {
-		t.Fatal(err)
-	}
+	solveInto(t, p, &doc)
 	for _, c := range []struct {
 		key string
 		got json.RawMessage

@@ -32,15 +32,7 @@ func twoSpans() *fem.Model {
 // train an invented four-axle vehicle 6.6 m long.
 func benchmarkTrain(b *testing.B, d Direction, positions int) {
 	m := twoSpans()
-	p, err := fem.Prepare(m)
-	if err != nil {
-		b.Fatal(err)
-	}
-	mesh := p.Mesh()
-	in, err := New(p)
-	if err != nil {
-		b.Fatal(err)
-	}
+	in, mesh := influenceOn(b, m)
 	tr := &Train{Axles: []Axle{{Load: 60e3}, {Load: 60e3, Spacing: 1.2}, {Load: 90e3, Spacing: 4.2}, {Load: 90e3, Spacing: 1.2}}, Direction: d}
 	tr.Step = (30 - tr.Length()) / float64(positions-1)
 	stations := Stations(mesh)
@@ -118,15 +110,7 @@ func BenchmarkNewInfluence(b *testing.B) {
 func BenchmarkDragStep(b *testing.B) {
 	m := beam(12, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: 6, Kind: fem.Roller}, fem.Support{X: 12, Kind: fem.Roller})
 	m.Mesh = fem.MeshSettings{Elements: 120}
-	p, err := fem.Prepare(m)
-	if err != nil {
-		b.Fatal(err)
-	}
-	in, err := New(p)
-	if err != nil {
-		b.Fatal(err)
-	}
-	mesh := p.Mesh()
+	in, mesh := influenceOn(b, m)
 	tr := &Train{Axles: []Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}, Step: 0.05}
 	stations := Stations(mesh)
 	b.ResetTimer()
@@ -153,15 +137,7 @@ func BenchmarkDragStep(b *testing.B) {
 func BenchmarkEnvelopeHundredAxles(b *testing.B) {
 	m := twoSpans()
 	m.Mesh = fem.MeshSettings{Elements: 2000}
-	p, err := fem.Prepare(m)
-	if err != nil {
-		b.Fatal(err)
-	}
-	mesh := p.Mesh()
-	in, err := New(p)
-	if err != nil {
-		b.Fatal(err)
-	}
+	in, mesh := influenceOn(b, m)
 	tr := &Train{Axles: []Axle{{Load: 20e3}}, Uniform: UniformLoad{Load: 5e3, Length: 24.75}, Direction: BothWays}
 	for range 99 {
 		tr.Axles = append(tr.Axles, Axle{Load: 20e3, Spacing: 0.25})
@@ -175,4 +151,18 @@ func BenchmarkEnvelopeHundredAxles(b *testing.B) {
 			b.Fatal(err)
 		}
 	}
+}
+
+// influenceOn is m's influence lines and mesh, for a benchmark.
+func influenceOn(b *testing.B, m *fem.Model) (*Influence, fem.Mesh) {
+	b.Helper()
+	p, err := fem.Prepare(m)
+	if err != nil {
+		b.Fatal(err)
+	}
+	in, err := New(p)
+	if err != nil {
+		b.Fatal(err)
+	}
+	return in, p.Mesh()
 }
