@@ -3,9 +3,6 @@ package app
 import (
 	"strings"
 	"testing"
-
-	"fyne.io/fyne/v2/test"
-	"fyne.io/fyne/v2/widget"
 )
 
 // dialogTexts are the texts of the labels of the dialog on top of w.
@@ -15,13 +12,7 @@ func dialogTexts(t *testing.T, w *Window) []string {
 	if top == nil {
 		t.Fatal("no dialog showing")
 	}
-	var texts []string
-	for _, o := range test.LaidOutObjects(top) {
-		if l, ok := o.(*widget.Label); ok {
-			texts = append(texts, l.Text)
-		}
-	}
-	return texts
+	return labelTexts(top)
 }
 
 // The section calculator writes a second moment and a section modulus in
