@@ -71,12 +71,7 @@ func crowdedSupportsLines(t *testing.T, eps float64) {
 			beam(10, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: 5, Kind: fem.Roller}, fem.Support{X: 5 + eps, Kind: fem.Roller},
 				fem.Support{X: 5 + 2*eps, Kind: fem.Roller}, fem.Support{X: 10, Kind: fem.Roller}),
 			Target{Reaction: true, Support: 0, Motion: fem.Transverse},
-			func(s float64) float64 {
-				if s >= 5 {
-					return 0
-				}
-				return proppedReaction(5, s)
-			},
+			leftProppedHalf,
 		},
 		{
 			// Two fixed supports 1 µm apart at midspan (1e-7 of the member):
@@ -88,12 +83,7 @@ func crowdedSupportsLines(t *testing.T, eps float64) {
 			beam(10, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: 5, Kind: fem.Fixed}, fem.Support{X: 5 + 1e-6, Kind: fem.Fixed},
 				fem.Support{X: 10, Kind: fem.Roller}),
 			Target{Reaction: true, Support: 0, Motion: fem.Transverse},
-			func(s float64) float64 {
-				if s >= 5 {
-					return 0
-				}
-				return proppedReaction(5, s)
-			},
+			leftProppedHalf,
 		},
 		{
 			// Three rollers 1 µm apart: as three 0.1 mm apart.
@@ -101,12 +91,7 @@ func crowdedSupportsLines(t *testing.T, eps float64) {
 			beam(10, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: 5, Kind: fem.Roller}, fem.Support{X: 5 + 1e-6, Kind: fem.Roller},
 				fem.Support{X: 5 + 2e-6, Kind: fem.Roller}, fem.Support{X: 10, Kind: fem.Roller}),
 			Target{Reaction: true, Support: 0, Motion: fem.Transverse},
-			func(s float64) float64 {
-				if s >= 5 {
-					return 0
-				}
-				return proppedReaction(5, s)
-			},
+			leftProppedHalf,
 		},
 	} {
 		l, err := influence(t, c.m).Line(c.target)
@@ -153,4 +138,15 @@ func TestCrowdedHingeLineIsTheExactSolution(t *testing.T) {
 			}
 		}
 	}
+}
+
+// leftProppedHalf is the left end's reaction per unit load at s of a
+// 10 m member pinned at 0 and held rigidly at midspan by crowded supports:
+// a propped cantilever of 5 m fixed at the middle, which a load on the
+// right half does not reach.
+func leftProppedHalf(s float64) float64 {
+	if s >= 5 {
+		return 0
+	}
+	return proppedReaction(5, s)
 }
