@@ -432,8 +432,8 @@ func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 	}
 	sh.para(fmt.Sprintf("Equilibrium residual (%s): %s, %s, %s (relative %.1e; FE %.1e)", reactions, f(units.Force, eq.Residual.Axial),
 		f(units.Force, eq.Residual.Transverse), f(units.Moment, eq.Residual.Moment), eq.Relative, sum.FEEquilibrium.Relative), inkColour)
-	sh.para(fmt.Sprintf("Mesh: %s, %s, bar order %d, condition estimate %.2e. %s",
-		units.Count(sum.Mesh.Elements, "element"), units.Count(sum.Mesh.Nodes, "node"), sum.Mesh.BarOrder, sum.Mesh.Condition, mesh), inkColour)
+	sh.para(fmt.Sprintf("Mesh: %s, %s, %s, condition estimate %.2e. %s",
+		units.Count(sum.Mesh.Elements, "element"), units.Count(sum.Mesh.Nodes, "node"), sum.Mesh.Kinds, sum.Mesh.Condition, mesh), inkColour)
 	if e := sum.ExactError; e != nil {
 		sh.para(fmt.Sprintf("FE against exact: %s %.3g %% of the largest stress, %s %.3g %%, %s %.3g %%",
 			fem.StressErrorName, 100*e.MaxStressRelative, fem.DisplacementErrorName, 100*e.RelativeL2, fem.EnergyErrorName, 100*e.RelativeEnergy), inkColour)

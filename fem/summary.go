@@ -35,9 +35,13 @@ type Extreme struct {
 
 // MeshSummary describes the discretisation a solution was computed on.
 type MeshSummary struct {
-	Elements  int
-	Nodes     int
-	BarOrder  int
+	Elements int
+	Nodes    int
+	BarOrder int
+	// Kinds names the elements in the trade's words: "linear bar and
+	// Hermite beam elements", or the bar's alone for a member solved as a
+	// bar alone.
+	Kinds     string
 	Condition float64 // estimated condition number of the key-point systems
 	// Automatic says Stave chose the mesh (the default mesh rule, for
 	// MeshAccuracy), and Note how, in words.
@@ -604,10 +608,16 @@ func (z *Summarizer) Summary() Summary {
 	if order == 0 {
 		order = int(LinearBar)
 	}
+	bar, beam := s.Model.Formulations()
+	kinds := bar.Name() + " and " + beam.Name() + " elements"
+	if s.AxialOnly {
+		kinds = bar.Name() + " elements"
+	}
 	sum.Mesh = MeshSummary{
 		Elements:  len(s.Mesh.Elements),
 		Nodes:     len(s.Mesh.X),
 		BarOrder:  order,
+		Kinds:     kinds,
 		Condition: s.Condition,
 		Automatic: s.Mesh.Automatic,
 		Note:      s.Mesh.Note,

@@ -515,3 +515,48 @@ func TestSmallStretchBesideBending(t *testing.T) {
 		}
 	}
 }
+
+// TestSummaryNamesTheElements: the mesh line names the elements a member is
+// solved with, not the bar's order alone, which read as "bar elements" on a
+// beam. The names are the element formulations' own (Formulation.Name).
+func TestSummaryNamesTheElements(t *testing.T) {
+	const L = 4.0
+	member := func(edit func(*Model)) *Model {
+		m := &Model{
+			Segments: []Segment{{Start: 0, End: L,
+				Section:  Section{Area: 4e-3, SecondMoment: 8e-6, FibreDistance: 0.1},
+				Material: Material{Elastic: 200e9}}},
+			Supports:        []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+			DistributedLoad: []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -5e3}, {L, -5e3}}}},
+			Mesh:            MeshSettings{Elements: 4},
+		}
+		edit(m)
+		return m
+	}
+	for _, tc := range []struct {
+		name string
+		edit func(*Model)
+		want string
+	}{
+		{"beam", func(*Model) {}, "linear bar and Hermite beam elements"},
+		{"quadratic bar, shear deformation", func(m *Model) {
+			m.Mesh.BarOrder = QuadraticBar
+			m.Segments[0].Section.ShearCoefficient = 5.0 / 6
+			m.Segments[0].Material.Poisson = 0.3
+			m.Segments[0].ShearDeformation = true
+		}, "quadratic bar and Timoshenko beam elements"},
+		{"tie", func(m *Model) {
+			m.AxialOnly = true
+			m.Supports = []Support{{X: 0, Kind: Pinned}}
+			m.DistributedLoad = []DistributedLoad{{Direction: Axial, Points: []LoadPoint{{0, -5e3}, {L, -5e3}}}}
+		}, "linear bar elements"},
+	} {
+		s, err := Solve(member(tc.edit))
+		if err != nil {
+			t.Fatalf("%s: %v", tc.name, err)
+		}
+		if got := Summarize(s, nil).Mesh.Kinds; got != tc.want {
+			t.Errorf("%s: the mesh's elements are %q, want %q", tc.name, got, tc.want)
+		}
+	}
+}

@@ -578,8 +578,8 @@ func percent(v float64) string { return fmt.Sprintf("%.3g %%", 100*v) }
 // WriteMeshText writes the line on the mesh: its size, who chose it and
 // how, and the accuracy its extremes reach against the exact ones.
 func WriteMeshText(w io.Writer, sum fem.Summary) {
-	fmt.Fprintf(w, "Mesh: %s, %s, bar elements of order %d, condition estimate %.2g\n",
-		units.Count(sum.Mesh.Elements, "element"), units.Count(sum.Mesh.Nodes, "node"), sum.Mesh.BarOrder, sum.Mesh.Condition)
+	fmt.Fprintf(w, "Mesh: %s, %s, %s, condition estimate %.2g\n",
+		units.Count(sum.Mesh.Elements, "element"), units.Count(sum.Mesh.Nodes, "node"), sum.Mesh.Kinds, sum.Mesh.Condition)
 	fmt.Fprintln(w, "  "+analysis.MeshChoice(sum))
 }
 
