@@ -13,6 +13,7 @@ import (
 	"unicode"
 	"unicode/utf8"
 
+	"stave/canvas"
 	"stave/canvas/report"
 	"stave/fem"
 	"stave/fem/check"
@@ -217,6 +218,11 @@ var csvHeader = []string{"file", "member", "status", "governing check", "utilisa
 	"deflection check", "deflection [m]", "span [m]", "span ratio n (span/n)", "limit ratio n", "warnings",
 	"FE accuracy (share of the field's largest magnitude)", "FE accuracy field"}
 
+// csvTextColumns are the columns of text, which canvas.CSVText keeps from
+// being read as formulas (a file name or member mark beginning with =);
+// the others hold numbers.
+var csvTextColumns = []int{0, 1, 2, 3, 5, 10, 12}
+
 func (c *csvWriter) start() error {
 	if c.w != nil {
 		return nil
@@ -245,6 +251,9 @@ func (c *csvWriter) Member(m Member) error {
 	}
 	if a := m.Accuracy; a != nil {
 		row[11], row[12] = num(a.Ratio), a.Quantity.Key()
+	}
+	for _, i := range csvTextColumns {
+		row[i] = canvas.CSVText(row[i])
 	}
 	return c.w.Write(row)
 }
