@@ -165,6 +165,17 @@ type jsonWriter struct {
 	n int
 }
 
+// The schedule document of `stave check --json` (docs/json.md): its
+// format name and version, which changes as report.ResultsVersion does,
+// when a key changes meaning or goes away.
+const (
+	Format  = "stave-check"
+	Version = 1
+)
+
+// jsonHead opens the schedule document, up to its members' list.
+var jsonHead = fmt.Sprintf("{\n  \"format\": %q,\n  \"version\": %d,\n  \"members\": [", Format, Version)
+
 // jsonUnits says the units of the JSON output.
 const jsonUnits = "SI: lengths (deflection_m, span_m) in m; utilisations and span ratios are pure numbers"
 
@@ -177,7 +188,7 @@ func (j *jsonWriter) Member(m Member) error {
 		return err
 	}
 	if j.n == 0 {
-		j.w.WriteString("{\n  \"members\": [\n    ")
+		j.w.WriteString(jsonHead + "\n    ")
 	} else {
 		j.w.WriteString(",\n    ")
 	}
@@ -188,7 +199,7 @@ func (j *jsonWriter) Member(m Member) error {
 
 func (j *jsonWriter) Close(s Summary) error {
 	if j.n == 0 {
-		j.w.WriteString("{\n  \"members\": [")
+		j.w.WriteString(jsonHead)
 	} else {
 		j.w.WriteString("\n  ")
 	}

@@ -52,11 +52,13 @@ func TestJSONStreamsOneDocument(t *testing.T) {
 	}
 	var want bytes.Buffer
 	err := report.WriteJSON(&want, struct {
+		Format  string   `json:"format"`
+		Version int      `json:"version"`
 		Members []Member `json:"members"`
 		Summary Summary  `json:"summary"`
 		Units   string   `json:"units"`
 		Caution string   `json:"caution"`
-	}{lines, sum, jsonUnits, fem.Caution})
+	}{Format, Version, lines, sum, jsonUnits, fem.Caution})
 	if err != nil {
 		t.Fatal(err)
 	}
