@@ -36,7 +36,7 @@ func (n *nodalLoads) of(s *fem.Solution) (nl *fem.NodalLoads, fresh bool) {
 	}
 	if s != n.solution {
 		n.solution, n.loads, fresh = s, nil, true
-		if nl, err := fem.NodalLoadsOn(&s.Model, s.Mesh); err == nil {
+		if nl, err := s.NodalLoads(); err == nil {
 			n.loads = nl
 		}
 	}

@@ -118,7 +118,7 @@ func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perEle
 		fmt.Fprintf(out, "# Each element at %d evenly spaced points (%d intervals), both ends included.\n", perElement+1, perElement)
 	}
 	for _, line := range notes {
-		out.WriteString(strings.TrimRight("# "+line, " ") + "\n")
+		out.WriteString(csvComment(strings.TrimRight("# "+line, " ")) + "\n")
 	}
 	header := []string{fmt.Sprintf("x [%s]", u.Unit(units.Position).Symbol)}
 	for _, q := range qs {
@@ -275,6 +275,35 @@ func (t *csvTable) rows(buf []byte, from, to int) []byte {
 		}
 	}
 	return buf
+}
+
+// CSVText is a text cell s as a CSV file holds it: as it is, or, when a
+// spreadsheet opening the file would read it as a formula (it begins with
+// =, +, -, @, a tab or a carriage return), behind a single quote, which the
+// spreadsheet shows as text and does not evaluate. Every CSV writer passes
+// the text it does not write itself (names, file names, messages) through
+// it; numbers are not text cells, and a negative one stays a number.
+func CSVText(s string) string {
+	if s != "" && strings.IndexByte("=+-@\t\r", s[0]) >= 0 {
+		return "'" + s
+	}
+	return s
+}
+
+// csvComment is a comment line as CSVText would write its cells: a
+// spreadsheet reads the line as a row of cells split at its commas, so
+// each cell after the first (which begins with #) that a spreadsheet would
+// read as a formula, or as a quoted field whose text might be one, gets the
+// single quote.
+func csvComment(line string) string {
+	cells := strings.Split(line, ",")
+	for i, c := range cells[1:] {
+		if strings.HasPrefix(c, `"`) {
+			c = "'" + c
+		}
+		cells[i+1] = CSVText(c)
+	}
+	return strings.Join(cells, ",")
 }
 
 // csvUnitsLine states the unit system and the unit of every column.

@@ -221,3 +221,57 @@ func TestWriteCSVRefusesHugeTables(t *testing.T) {
 		t.Errorf("the table of %d elements' ends: %v, %d bytes", len(big.Solution.Mesh.Elements), err, n)
 	}
 }
+
+// CSVText puts a single quote before a text that a spreadsheet would read
+// as a formula: one that begins with =, +, -, @, a tab or a carriage return
+// (the triggers and the remedy of OWASP's "CSV Injection" page).
+func TestCSVText(t *testing.T) {
+	for _, c := range []struct{ in, want string }{
+		{"=1+1", "'=1+1"},
+		{"+1", "'+1"},
+		{"-1", "'-1"},
+		{"@SUM(A1)", "'@SUM(A1)"},
+		{"\t=1", "'\t=1"},
+		{"\r=1", "'\r=1"},
+		{"", ""},
+		{"beam 1", "beam 1"},
+		{"B-1 = 3", "B-1 = 3"},
+		{" =1", " =1"},
+		{"'=1", "'=1"},
+	} {
+		if got := CSVText(c.in); got != c.want {
+			t.Errorf("CSVText(%q) = %q, want %q", c.in, got, c.want)
+		}
+	}
+}
+
+// The notes are comment lines, which a spreadsheet reads as a row of cells
+// split at the commas: a name in them such as a combination named
+// `a,=1+1` began a cell with a formula (or with a quote, `b,"=1"`, which
+// the spreadsheet takes off). Such a cell gets the single quote of CSVText;
+// a line with no such cell is written as it is.
+func TestWriteCSVNotesAreNotFormulas(t *testing.T) {
+	in := solved(t, demoModel(2))
+	notes := []string{
+		`Showing combination "a,=1+1"`,
+		`train "b,"=1", front at 2 m`,
+		`Reactions, x = 1,-2 kN,+3,@x`,
+		`Mesh: 2 elements, 3 nodes`,
+	}
+	want := []string{
+		`# Showing combination "a,'=1+1"`,
+		`# train "b,'"=1", front at 2 m`,
+		`# Reactions, x = 1,'-2 kN,'+3,'@x`,
+		`# Mesh: 2 elements, 3 nodes`,
+	}
+	var buf bytes.Buffer
+	if err := WriteCSV(&buf, in.Solution, in.Exact, units.SI, 1, notes); err != nil {
+		t.Fatal(err)
+	}
+	lines := strings.Split(buf.String(), "\n")
+	for _, w := range want {
+		if !slices.Contains(lines, w) {
+			t.Errorf("no line %q in:\n%s", w, strings.Join(lines[:12], "\n"))
+		}
+	}
+}

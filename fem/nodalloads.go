@@ -115,6 +115,12 @@ func NodalLoadsOn(m *Model, mesh Mesh) (*NodalLoads, error) {
 	return out, nil
 }
 
+// NodalLoads are the nodal loads of s's line loads and self-weight on its
+// own mesh: what the window's strip and `stave solve --json` show.
+func (s *Solution) NodalLoads() (*NodalLoads, error) {
+	return NodalLoadsOn(&s.Model, s.Mesh)
+}
+
 // add3 adds the loads f at x to the sums r: forces, and the moment about x = 0.
 func add3(r [3]float64, x float64, f [3]float64) [3]float64 {
 	return [3]float64{r[0] + f[Axial], r[1] + f[Transverse], r[2] + f[Rotation] + x*f[Transverse]}

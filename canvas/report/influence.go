@@ -334,9 +334,19 @@ func directionWords(d moving.Direction) string {
 	return "both ways"
 }
 
+// The influence line document of `stave influence --json` (docs/json.md):
+// its format name and version, which changes as ResultsVersion does, when
+// a key changes meaning or goes away.
+const (
+	InfluenceFormat  = "stave-influence"
+	InfluenceVersion = 1
+)
+
 // InfluenceJSON is the influence command's JSON, in SI units: the line of
 // one target (values per newton of the unit load) and the trains.
 type InfluenceJSON struct {
+	Format  string `json:"format"`
+	Version int    `json:"version"`
 	File    string `json:"file"`
 	Units   string `json:"units"`
 	Caution string `json:"caution"`
@@ -362,7 +372,7 @@ const influenceMethod = "exact: the member's Green's function in closed form (pi
 
 // WriteInfluenceJSON writes r as JSON for the model in file path.
 func WriteInfluenceJSON(w io.Writer, path string, r *MovingLoads) error {
-	var j InfluenceJSON
+	j := InfluenceJSON{Format: InfluenceFormat, Version: InfluenceVersion}
 	j.File, j.Units, j.Caution = path, "SI base units: m, N, N·m, Pa, rad; influence ordinates per N of the unit load", fem.Caution
 	t := r.Line.Target
 	l := &j.Line

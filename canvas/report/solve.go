@@ -47,8 +47,12 @@ type resultsDocument struct {
 	Headline string    `json:"headline,omitempty"`
 	Mesh     *meshJSON `json:"mesh,omitempty"`
 	*Results
-	Checks   []checkJSON   `json:"checks"`
-	Warnings []warningJSON `json:"warnings"`
+	// NodalLoads are the consistent nodal loads of the line loads and the
+	// self-weight on the mesh solved, as the window's strip shows them;
+	// nil for a model with load cases.
+	NodalLoads *nodalLoadsJSON `json:"nodal_loads,omitempty"`
+	Checks     []checkJSON     `json:"checks"`
+	Warnings   []warningJSON   `json:"warnings"`
 	// The cases, combinations and envelope of a model with load cases
 	// (cases.go); Results are then of the case or combination shown.
 	*CasesJSON
@@ -341,6 +345,73 @@ func meshOf(s fem.Summary) *meshJSON {
 	return m
 }
 
+// MaxNodalLoadsListed is the most loaded nodes the results document lists
+// one by one (about 100 bytes each): a mesh that loads more gives their
+// count and sums alone, as a document for a program to read should not run
+// to megabytes for a fine mesh under a load along all of it.
+const MaxNodalLoadsListed = 10_000
+
+// nodalLoadsJSON are the consistent nodal loads of the line loads and the
+// self-weight (fem.NodalLoads): every node they load, unless there are more
+// than MaxNodalLoadsListed, their sum and the load's own resultant.
+type nodalLoadsJSON struct {
+	Bar         string          `json:"bar"`
+	Beam        string          `json:"beam"`
+	LoadedNodes int             `json:"loaded_nodes"`
+	Listed      bool            `json:"nodes_listed"`
+	Nodes       []nodalLoadJSON `json:"nodes"`
+	Sum         loadSumJSON     `json:"sum"`
+	Resultant   loadSumJSON     `json:"resultant"`
+}
+
+// nodalLoadJSON is the consistent load on one node: forces along x and
+// across (N), moment (N·m, counter-clockwise). MiddleNode marks the middle
+// node of a quadratic bar element, which takes an axial force only.
+type nodalLoadJSON struct {
+	X          float64 `json:"x"`
+	MiddleNode bool    `json:"middle_node"`
+	loadSumJSON
+	XUnit string `json:"x_unit"`
+}
+
+// loadSumJSON is a load: forces along x and across, and a moment (a
+// resultant's about x = 0), with their units.
+type loadSumJSON struct {
+	Axial      float64 `json:"axial"`
+	Transverse float64 `json:"transverse"`
+	Moment     float64 `json:"moment"`
+	ForceUnit  string  `json:"force_unit"`
+	MomentUnit string  `json:"moment_unit"`
+}
+
+// loadOf is the load r (along, across, moment) in SI units.
+func loadOf(r [3]float64) loadSumJSON {
+	return loadSumJSON{r[fem.Axial], r[fem.Transverse], r[fem.Rotation], "N", "N·m"}
+}
+
+// nodalLoadsOf is nl as the results document lists it: the nodes with a
+// load, in order along the member, the middle nodes of quadratic bars
+// between their ends.
+func nodalLoadsOf(nl *fem.NodalLoads) *nodalLoadsJSON {
+	out := &nodalLoadsJSON{Bar: nl.Bar, Beam: nl.Beam, Nodes: []nodalLoadJSON{}, Sum: loadOf(nl.Consistent), Resultant: loadOf(nl.Resultant)}
+	var loaded []nodalLoadJSON
+	for i, n := range nl.Nodes {
+		if n.Consistent != [3]float64{} {
+			loaded = append(loaded, nodalLoadJSON{X: n.X, loadSumJSON: loadOf(n.Consistent), XUnit: "m"})
+		}
+		if i < len(nl.Elements) {
+			if e := nl.Elements[i]; e.BarMiddle != 0 {
+				loaded = append(loaded, nodalLoadJSON{X: (e.Start + e.End) / 2, MiddleNode: true, loadSumJSON: loadOf([3]float64{e.BarMiddle, 0, 0}), XUnit: "m"})
+			}
+		}
+	}
+	out.LoadedNodes = len(loaded)
+	if out.Listed = len(loaded) <= MaxNodalLoadsListed; out.Listed && loaded != nil {
+		out.Nodes = loaded
+	}
+	return out
+}
+
 var kindNames = [...]string{check.Design: "design", check.Verification: "verification"}
 
 // checksOf lists the checks of a.
@@ -396,6 +467,13 @@ func WriteSolveJSON(w io.Writer, path string, src Source) error {
 	if a.Solution != nil {
 		sum := a.Summary()
 		doc.Headline, doc.Mesh, doc.Results = headlineName(sum.Exact), meshOf(sum), resultsOf(sum)
+		if a.Cases == nil { // fem.Solution.NodalLoads takes the model's own loads, not its cases'
+			nl, err := a.Solution.NodalLoads()
+			if err != nil {
+				return err
+			}
+			doc.NodalLoads = nodalLoadsOf(nl)
+		}
 		cases, err := CasesResults(a)
 		if err != nil {
 			return err

@@ -776,6 +776,7 @@ var dimensionless = map[string]bool{
 	"version": true, "support": true, "foundation": true, "elements": true, "nodes": true, "bar_order": true,
 	"condition_estimate": true, "accuracy": true, "accuracy_target": true, "accuracy_reached": true,
 	"relative": true, "stress_error": true, "displacement_error": true, "energy_error": true,
+	"loaded_nodes": true,
 }
 
 func walkJSON(t *testing.T, file, path string, v any) {

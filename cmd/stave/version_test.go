@@ -1,6 +1,7 @@
 package main
 
 import (
+	"encoding/json"
 	"fmt"
 	"os"
 	"strconv"
@@ -61,6 +62,37 @@ func TestVersionArguments(t *testing.T) {
 		code, out, stderr := runStave(t, c.args...)
 		if code != c.code || !strings.HasPrefix(out, c.out) || (c.code == 2) != strings.Contains(stderr, "version takes no argument") {
 			t.Errorf("stave %v: exit %d, stdout %q, stderr %q; want exit %d, stdout from %q", c.args, code, out, stderr, c.code, c.out)
+		}
+	}
+}
+
+// Every JSON document of the command line names its format and version
+// (docs/json.md, "Format and version"), so a program can tell what it reads
+// and refuse a version it does not know: the influence line and the check
+// schedule had neither.
+func TestJSONDocumentsNameTheirFormat(t *testing.T) {
+	const model = "../../testdata/simply_supported_uniform.json"
+	for _, c := range []struct {
+		args   []string
+		format string
+	}{
+		{[]string{"solve", "--json", model}, "stave-results"},
+		{[]string{"converge", "--json", "--max", "4", model}, "stave-convergence"},
+		{[]string{"influence", "--json", "--quantity", "M", "--at", "2", model}, "stave-influence"},
+		{[]string{"check", "--json", model}, "stave-check"},
+		{[]string{"check", "--json", "no-such-file.json"}, "stave-check"}, // a refused member still gives the document
+	} {
+		_, out, stderr := runStave(t, c.args...)
+		var doc struct {
+			Format  *string `json:"format"`
+			Version *int    `json:"version"`
+		}
+		if err := json.Unmarshal([]byte(out), &doc); err != nil {
+			t.Errorf("stave %v: not JSON (%v, stderr %q):\n%s", c.args, err, stderr, out)
+			continue
+		}
+		if doc.Format == nil || *doc.Format != c.format || doc.Version == nil || *doc.Version != 1 {
+			t.Errorf("stave %v: format %v, version %v; want %q and 1", c.args, doc.Format, doc.Version, c.format)
 		}
 	}
 }

@@ -13,6 +13,7 @@ import (
 	"unicode"
 	"unicode/utf8"
 
+	"stave/canvas"
 	"stave/canvas/report"
 	"stave/fem"
 	"stave/fem/check"
@@ -164,6 +165,17 @@ type jsonWriter struct {
 	n int
 }
 
+// The schedule document of `stave check --json` (docs/json.md): its
+// format name and version, which changes as report.ResultsVersion does,
+// when a key changes meaning or goes away.
+const (
+	Format  = "stave-check"
+	Version = 1
+)
+
+// jsonHead opens the schedule document, up to its members' list.
+var jsonHead = fmt.Sprintf("{\n  \"format\": %q,\n  \"version\": %d,\n  \"members\": [", Format, Version)
+
 // jsonUnits says the units of the JSON output.
 const jsonUnits = "SI: lengths (deflection_m, span_m) in m; utilisations and span ratios are pure numbers"
 
@@ -176,7 +188,7 @@ func (j *jsonWriter) Member(m Member) error {
 		return err
 	}
 	if j.n == 0 {
-		j.w.WriteString("{\n  \"members\": [\n    ")
+		j.w.WriteString(jsonHead + "\n    ")
 	} else {
 		j.w.WriteString(",\n    ")
 	}
@@ -187,7 +199,7 @@ func (j *jsonWriter) Member(m Member) error {
 
 func (j *jsonWriter) Close(s Summary) error {
 	if j.n == 0 {
-		j.w.WriteString("{\n  \"members\": [")
+		j.w.WriteString(jsonHead)
 	} else {
 		j.w.WriteString("\n  ")
 	}
@@ -217,6 +229,11 @@ var csvHeader = []string{"file", "member", "status", "governing check", "utilisa
 	"deflection check", "deflection [m]", "span [m]", "span ratio n (span/n)", "limit ratio n", "warnings",
 	"FE accuracy (share of the field's largest magnitude)", "FE accuracy field"}
 
+// csvTextColumns are the columns of text, which canvas.CSVText keeps from
+// being read as formulas (a file name or member mark beginning with =);
+// the others hold numbers.
+var csvTextColumns = []int{0, 1, 2, 3, 5, 10, 12}
+
 func (c *csvWriter) start() error {
 	if c.w != nil {
 		return nil
@@ -245,6 +262,9 @@ func (c *csvWriter) Member(m Member) error {
 	}
 	if a := m.Accuracy; a != nil {
 		row[11], row[12] = num(a.Ratio), a.Quantity.Key()
+	}
+	for _, i := range csvTextColumns {
+		row[i] = canvas.CSVText(row[i])
 	}
 	return c.w.Write(row)
 }

@@ -52,11 +52,13 @@ func TestJSONStreamsOneDocument(t *testing.T) {
 	}
 	var want bytes.Buffer
 	err := report.WriteJSON(&want, struct {
+		Format  string   `json:"format"`
+		Version int      `json:"version"`
 		Members []Member `json:"members"`
 		Summary Summary  `json:"summary"`
 		Units   string   `json:"units"`
 		Caution string   `json:"caution"`
-	}{lines, sum, jsonUnits, fem.Caution})
+	}{Format, Version, lines, sum, jsonUnits, fem.Caution})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -222,5 +224,52 @@ func TestTextRowOfAHostileName(t *testing.T) {
 	}
 	if !strings.Contains(out, `a\nb\xff.json`) || !strings.Contains(out, `c\nd.json`) {
 		t.Errorf("the names are not written escaped:\n%s", out)
+	}
+}
+
+// A text cell a spreadsheet would read as a formula (one that begins with
+// =, +, -, @, a tab or a carriage return: the triggers OWASP's "CSV
+// Injection" page lists) is written behind a single quote, the remedy that
+// page gives; numbers, negative ones too, stay numbers. The file name, the
+// mark and the warnings are the user's text; before, "=HYPERLINK(...)" as a
+// member mark reached the cell as it was.
+func TestCSVTextCellsAreNotFormulas(t *testing.T) {
+	for _, c := range []struct {
+		file, mark, problem string
+		want                [3]string // file, member, warnings
+	}{
+		{"=cmd.json", "=HYPERLINK(\"x\")", "+SUM(A1)", [3]string{"'=cmd.json", "'=HYPERLINK(\"x\")", "'+SUM(A1)"}},
+		{"-x.json", "@A1", "\tfile", [3]string{"'-x.json", "'@A1", "'\tfile"}},
+		{"\rx.json", "B-1", "a = b", [3]string{"'\rx.json", "B-1", "a = b"}},
+		{"beam.json", "", "", [3]string{"beam.json", "", ""}},
+	} {
+		m := Member{File: c.file, Mark: c.mark, Status: Refused, Problem: c.problem}
+		if c.problem == "" {
+			m.Status = OK
+			// Invented values; a negative deflection and utilisation test that numbers keep their sign.
+			m.Governing = &Check{Name: "Bending stress", Utilisation: -0.5}
+			m.Deflection = &Deflection{Check: Check{Name: "Deflection, span 1", Utilisation: 0.25}, Deflection: -0.004, Span: 4, Ratio: 1000, LimitRatio: 250}
+		}
+		var out bytes.Buffer
+		w, _ := NewWriter("csv", &out)
+		if err := w.Member(m); err != nil {
+			t.Fatal(err)
+		}
+		if err := w.Close(Summary{}); err != nil {
+			t.Fatal(err)
+		}
+		r := csv.NewReader(&out)
+		r.Comment = '#'
+		rows, err := r.ReadAll()
+		if err != nil {
+			t.Fatal(err)
+		}
+		row := rows[1]
+		if got := [3]string{row[0], row[1], row[10]}; got != c.want {
+			t.Errorf("%q, %q, %q: cells %q, want %q", c.file, c.mark, c.problem, got, c.want)
+		}
+		if m.Governing != nil && (row[4] != "-0.5" || row[6] != "-0.004") {
+			t.Errorf("numbers %q and %q, want -0.5 and -0.004 as they are", row[4], row[6])
+		}
 	}
 }
