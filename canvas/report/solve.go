@@ -348,7 +348,10 @@ func meshOf(s fem.Summary) *meshJSON {
 // MaxNodalLoadsListed is the most loaded nodes the results document lists
 // one by one (about 100 bytes each): a mesh that loads more gives their
 // count and sums alone, as a document for a program to read should not run
-// to megabytes for a fine mesh under a load along all of it.
+// to megabytes for a fine mesh under a load along all of it. A mesh of
+// more elements than this gets no nodal loads worked out at all (their
+// table costs more than the solve on a mesh of 10⁶ elements): only the
+// element formulations, with nodes_listed false.
 const MaxNodalLoadsListed = 10_000
 
 // nodalLoadsJSON are the consistent nodal loads of the line loads and the
@@ -357,11 +360,11 @@ const MaxNodalLoadsListed = 10_000
 type nodalLoadsJSON struct {
 	Bar         string          `json:"bar"`
 	Beam        string          `json:"beam"`
-	LoadedNodes int             `json:"loaded_nodes"`
+	LoadedNodes *int            `json:"loaded_nodes"`
 	Listed      bool            `json:"nodes_listed"`
 	Nodes       []nodalLoadJSON `json:"nodes"`
-	Sum         loadSumJSON     `json:"sum"`
-	Resultant   loadSumJSON     `json:"resultant"`
+	Sum         *loadSumJSON    `json:"sum"`
+	Resultant   *loadSumJSON    `json:"resultant"`
 }
 
 // nodalLoadJSON is the consistent load on one node: forces along x and
@@ -385,8 +388,8 @@ type loadSumJSON struct {
 }
 
 // loadOf is the load r (along, across, moment) in SI units.
-func loadOf(r [3]float64) loadSumJSON {
-	return loadSumJSON{r[fem.Axial], r[fem.Transverse], r[fem.Rotation], "N", "N·m"}
+func loadOf(r [3]float64) *loadSumJSON {
+	return &loadSumJSON{r[fem.Axial], r[fem.Transverse], r[fem.Rotation], "N", "N·m"}
 }
 
 // nodalLoadsOf is nl as the results document lists it: the nodes with a
@@ -397,19 +400,34 @@ func nodalLoadsOf(nl *fem.NodalLoads) *nodalLoadsJSON {
 	var loaded []nodalLoadJSON
 	for i, n := range nl.Nodes {
 		if n.Consistent != [3]float64{} {
-			loaded = append(loaded, nodalLoadJSON{X: n.X, loadSumJSON: loadOf(n.Consistent), XUnit: "m"})
+			loaded = append(loaded, nodalLoadJSON{X: n.X, loadSumJSON: *loadOf(n.Consistent), XUnit: "m"})
 		}
 		if i < len(nl.Elements) {
 			if e := nl.Elements[i]; e.BarMiddle != 0 {
-				loaded = append(loaded, nodalLoadJSON{X: (e.Start + e.End) / 2, MiddleNode: true, loadSumJSON: loadOf([3]float64{e.BarMiddle, 0, 0}), XUnit: "m"})
+				loaded = append(loaded, nodalLoadJSON{X: (e.Start + e.End) / 2, MiddleNode: true, loadSumJSON: *loadOf([3]float64{e.BarMiddle, 0, 0}), XUnit: "m"})
 			}
 		}
 	}
-	out.LoadedNodes = len(loaded)
+	n := len(loaded)
+	out.LoadedNodes = &n
 	if out.Listed = len(loaded) <= MaxNodalLoadsListed; out.Listed && loaded != nil {
 		out.Nodes = loaded
 	}
 	return out
+}
+
+// nodalLoadsOfSolution are s's nodal loads as the results document lists
+// them, not worked out on a mesh of more than MaxNodalLoadsListed elements.
+func nodalLoadsOfSolution(s *fem.Solution) (*nodalLoadsJSON, error) {
+	if len(s.Mesh.Elements) > MaxNodalLoadsListed {
+		bar, beam := s.Model.Formulations()
+		return &nodalLoadsJSON{Bar: bar.Name(), Beam: beam.Name(), Nodes: []nodalLoadJSON{}}, nil
+	}
+	nl, err := s.NodalLoads()
+	if err != nil {
+		return nil, err
+	}
+	return nodalLoadsOf(nl), nil
 }
 
 var kindNames = [...]string{check.Design: "design", check.Verification: "verification"}
@@ -468,11 +486,10 @@ func WriteSolveJSON(w io.Writer, path string, src Source) error {
 		sum := a.Summary()
 		doc.Headline, doc.Mesh, doc.Results = headlineName(sum.Exact), meshOf(sum), resultsOf(sum)
 		if a.Cases == nil { // fem.Solution.NodalLoads takes the model's own loads, not its cases'
-			nl, err := a.Solution.NodalLoads()
-			if err != nil {
+			var err error
+			if doc.NodalLoads, err = nodalLoadsOfSolution(a.Solution); err != nil {
 				return err
 			}
-			doc.NodalLoads = nodalLoadsOf(nl)
 		}
 		cases, err := CasesResults(a)
 		if err != nil {

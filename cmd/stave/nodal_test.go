@@ -124,6 +124,33 @@ func TestSolveJSONNodalLoadsBounded(t *testing.T) {
 	}
 }
 
+// On a mesh of more elements than the list holds, the nodal loads are not
+// worked out at all (their table took 0.7 s and 500 MB on 10⁶ elements,
+// more than the whole solve): the key names the formulations, says the
+// nodes are not listed and gives no count or sums.
+func TestSolveJSONNodalLoadsNotWorkedOutOnAFineMesh(t *testing.T) {
+	path := variant(t, t.TempDir(), "beam", elements(10001))
+	_, out, stderr := runStave(t, "solve", "--json", path)
+	var doc struct {
+		NodalLoads map[string]any `json:"nodal_loads"`
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil || doc.NodalLoads == nil {
+		t.Fatalf("solve --json: nodal_loads %v, error %v, stderr %q", doc.NodalLoads, err, stderr)
+	}
+	nl := doc.NodalLoads
+	if nl["bar"] != "linear bar" || nl["beam"] != "Hermite beam" || nl["nodes_listed"] != false {
+		t.Errorf("nodal_loads %v: want the formulations and nodes_listed false", nl)
+	}
+	for _, k := range []string{"loaded_nodes", "sum", "resultant"} {
+		if v, ok := nl[k]; !ok || v != nil {
+			t.Errorf("nodal_loads.%s = %v, want null (not worked out)", k, v)
+		}
+	}
+	if nodes, _ := nl["nodes"].([]any); nodes == nil || len(nodes) != 0 {
+		t.Errorf("nodal_loads.nodes = %v, want an empty list", nl["nodes"])
+	}
+}
+
 // A model with load cases has no nodal_loads: its loads are its cases',
 // which the model's own nodal loads (fem.Solution.NodalLoads) leave out, so
 // the key listed none (two spans under −10 kN/m in every case, testdata).
