@@ -35,10 +35,7 @@ func (n *nodalLoads) of(s *fem.Solution) (nl *fem.NodalLoads, fresh bool) {
 		return nil, false
 	}
 	if s != n.solution {
-		n.solution, n.loads, fresh = s, nil, true
-		if nl, err := s.NodalLoads(); err == nil {
-			n.loads = nl
-		}
+		n.solution, n.loads, fresh = s, s.NodalLoads(), true
 	}
 	return n.loads, fresh
 }

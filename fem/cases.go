@@ -207,6 +207,14 @@ func CombineSolutions(sols []*Solution, factors []float64) (*Solution, error) {
 		Displacement: make([][3]float64, len(first.Displacement)),
 		Reactions:    make([]Reaction, len(first.Reactions)),
 		fields:       make([]elementField, len(first.fields))}
+	sets := make([]Loads, len(sols))
+	for k, s := range sols {
+		sets[k] = s.loads
+	}
+	var err error
+	if out.loads, err = CombineLoads(sets, factors); err != nil {
+		return nil, err
+	}
 	copy(out.Reactions, first.Reactions)
 	for i := range out.Reactions {
 		out.Reactions[i].Force = [3]float64{}

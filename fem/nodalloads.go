@@ -71,7 +71,12 @@ func NodalLoadsOn(m *Model, mesh Mesh) (*NodalLoads, error) {
 	if err := checkMesh(pm, p.keys, mesh); err != nil {
 		return nil, err
 	}
-	l := GatherLoads(pm, p.keys)
+	return nodalLoads(pm, mesh, GatherLoads(pm, p.keys)), nil
+}
+
+// nodalLoads are those of the line loads and self-weight in l, gathered on
+// the key points of the prepared model pm, on mesh.
+func nodalLoads(pm *Model, mesh Mesh, l Loads) *NodalLoads {
 	l.Points, l.TemperatureChange = nil, 0 // line loads and self-weight alone
 	els, _ := elementTable(pm, mesh, mesh.X, &l)
 	bar, beam := pm.Formulations()
@@ -112,13 +117,15 @@ func NodalLoadsOn(m *Model, mesh Mesh) (*NodalLoads, error) {
 	for _, e := range out.Elements {
 		out.Consistent = add3(out.Consistent, (e.Start+e.End)/2, [3]float64{e.BarMiddle, 0, 0})
 	}
-	return out, nil
+	return out
 }
 
-// NodalLoads are the nodal loads of s's line loads and self-weight on its
-// own mesh: what the window's strip and `stave solve --json` show.
-func (s *Solution) NodalLoads() (*NodalLoads, error) {
-	return NodalLoadsOn(&s.Model, s.Mesh)
+// NodalLoads are the nodal loads of the line loads and self-weight s
+// answers, on its own mesh: what the window's strip and `stave solve
+// --json` show. For a load case or a combination they are its own loads
+// (a combination's the sum of its factored cases), not the model's.
+func (s *Solution) NodalLoads() *NodalLoads {
+	return nodalLoads(&s.Model, s.Mesh, s.loads)
 }
 
 // add3 adds the loads f at x to the sums r: forces, and the moment about x = 0.

@@ -221,3 +221,72 @@ func TestNodalLoadsShearDeformation(t *testing.T) {
 		}
 	}
 }
+
+// The nodal loads of a load case's solution, and of a combination's, are
+// that case's and that sum's own: a model with cases keeps its loads in the
+// cases, so loads taken from the model itself were none (the window's strip
+// said "no line load or self-weight" under a case of 10 kN/m). Uniform q on
+// elements of length h puts q·h/2 and ±q·h²/12 on the end nodes and q·h on
+// the inner ones (the consistent load vector of a uniformly loaded Hermite
+// beam element, [qh/2, qh²/12, qh/2, −qh²/12], textbook closed form, from
+// memory).
+func TestNodalLoadsOfCasesAndCombinations(t *testing.T) {
+	const l, n, q1, q2, f1, f2 = 4.0, 4, -3e3, -5e3, 1.35, 1.5
+	m := beamOn(l, n, fem.LinearBar)
+	m.Cases = []fem.LoadCase{
+		{Name: "permanent", DistributedLoad: []fem.DistributedLoad{uniform(fem.Transverse, l, q1)}},
+		{Name: "imposed", DistributedLoad: []fem.DistributedLoad{uniform(fem.Transverse, l, q2)}},
+	}
+	p, err := fem.Prepare(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	st, err := p.Structure(p.Mesh())
+	if err != nil {
+		t.Fatal(err)
+	}
+	sets := p.LoadSets()
+	var sols []*fem.Solution
+	for i := range sets {
+		s, err := st.Solve(&sets[i])
+		if err != nil {
+			t.Fatal(err)
+		}
+		sols = append(sols, s)
+	}
+	combined, err := fem.CombineSolutions(sols, []float64{f1, f2})
+	if err != nil {
+		t.Fatal(err)
+	}
+	const h = l / n
+	for _, tc := range []struct {
+		name string
+		s    *fem.Solution
+		q    float64
+	}{
+		{"case permanent", sols[0], q1},
+		{"case imposed", sols[1], q2},
+		{"combination 1.35 permanent + 1.5 imposed", combined, f1*q1 + f2*q2},
+	} {
+		nl := tc.s.NodalLoads()
+		if len(nl.Nodes) != n+1 {
+			t.Fatalf("%s: %d nodes, want %d", tc.name, len(nl.Nodes), n+1)
+		}
+		scale := math.Abs(tc.q) * l * l
+		for i, node := range nl.Nodes {
+			force, moment := tc.q*h, 0.0
+			switch i {
+			case 0:
+				force, moment = tc.q*h/2, tc.q*h*h/12
+			case n:
+				force, moment = tc.q*h/2, -tc.q*h*h/12
+			}
+			if !near(node.Consistent[fem.Transverse], force, scale) || !near(node.Consistent[fem.Rotation], moment, scale) {
+				t.Errorf("%s: node %d carries %g N and %g N·m, want %g and %g", tc.name, i, node.Consistent[fem.Transverse], node.Consistent[fem.Rotation], force, moment)
+			}
+		}
+		if !near(nl.Resultant[fem.Transverse], tc.q*l, scale) {
+			t.Errorf("%s: resultant %g N, want q·L = %g", tc.name, nl.Resultant[fem.Transverse], tc.q*l)
+		}
+	}
+}

@@ -34,7 +34,10 @@ type Solution struct {
 
 	sections []sectionData // per segment of Model
 	barOrder ElementOrder
-	fields   []elementField // per element of Mesh
+	// loads are what the solution answers, gathered on the key points: the
+	// member's own, a load case's, or a combination's sum.
+	loads  Loads
+	fields []elementField // per element of Mesh
 	// releasedStart holds the own start rotation of each element that
 	// starts at a hinge, by element (rad); nil without hinges.
 	releasedStart map[int]float64
@@ -191,6 +194,7 @@ func (st *Structure) Solve(l *Loads) (*Solution, error) {
 	}
 	s := &Solution{Model: st.model, Mesh: mesh, sections: sectionTable(m, l), Condition: st.condition}
 	s.Warnings = append(s.Warnings, st.warnings...)
+	s.loads = *l
 	s.barOrder = m.Mesh.BarOrder
 	if s.barOrder == 0 {
 		s.barOrder = LinearBar

@@ -418,16 +418,12 @@ func nodalLoadsOf(nl *fem.NodalLoads) *nodalLoadsJSON {
 
 // nodalLoadsOfSolution are s's nodal loads as the results document lists
 // them, not worked out on a mesh of more than MaxNodalLoadsListed elements.
-func nodalLoadsOfSolution(s *fem.Solution) (*nodalLoadsJSON, error) {
+func nodalLoadsOfSolution(s *fem.Solution) *nodalLoadsJSON {
 	if len(s.Mesh.Elements) > MaxNodalLoadsListed {
 		bar, beam := s.Model.Formulations()
-		return &nodalLoadsJSON{Bar: bar.Name(), Beam: beam.Name(), Nodes: []nodalLoadJSON{}}, nil
+		return &nodalLoadsJSON{Bar: bar.Name(), Beam: beam.Name(), Nodes: []nodalLoadJSON{}}
 	}
-	nl, err := s.NodalLoads()
-	if err != nil {
-		return nil, err
-	}
-	return nodalLoadsOf(nl), nil
+	return nodalLoadsOf(s.NodalLoads())
 }
 
 var kindNames = [...]string{check.Design: "design", check.Verification: "verification"}
@@ -485,11 +481,10 @@ func WriteSolveJSON(w io.Writer, path string, src Source) error {
 	if a.Solution != nil {
 		sum := a.Summary()
 		doc.Headline, doc.Mesh, doc.Results = headlineName(sum.Exact), meshOf(sum), resultsOf(sum)
-		if a.Cases == nil { // fem.Solution.NodalLoads takes the model's own loads, not its cases'
-			var err error
-			if doc.NodalLoads, err = nodalLoadsOfSolution(a.Solution); err != nil {
-				return err
-			}
+		// A model with cases has one solution per view, not one set of
+		// loads: its cases and combinations are listed apart.
+		if a.Cases == nil {
+			doc.NodalLoads = nodalLoadsOfSolution(a.Solution)
 		}
 		cases, err := CasesResults(a)
 		if err != nil {
