@@ -1,10 +1,6 @@
 package canvas
 
-import (
-	"slices"
-
-	"stave/fem"
-)
+import "stave/fem"
 
 // The largest gap between the finite element and the exact solution of
 // each diagram, over the whole member, in closed form (ElementView.Gap), so
@@ -61,28 +57,11 @@ func (w *gapFinder) Join(later fem.Visitor) {
 }
 
 // gapMemo keeps the largest gaps of one solution against one exact
-// solution between builds: they depend on neither the view nor the hover.
+// solution between builds (Cache.read): they depend on neither the view
+// nor the hover.
 type gapMemo struct {
 	solution *fem.Solution
 	exact    *fem.Exact
 	qs       []fem.Quantity
 	gaps     []gap
-}
-
-// gaps returns the largest gap of each of qs between s and e, walking the
-// elements only when s, e or qs changed since the last call; c may be nil.
-func (c *Cache) gaps(s *fem.Solution, e *fem.Exact, qs []fem.Quantity) []gap {
-	var m gapMemo
-	if c != nil {
-		m = c.gapMemo
-	}
-	if m.solution != s || m.exact != e || !slices.Equal(m.qs, qs) {
-		w := newGapFinder(slices.Clone(qs))
-		fem.Walk(s, e, w)
-		m = gapMemo{s, e, w.qs, w.gaps}
-	}
-	if c != nil {
-		c.gapMemo = m
-	}
-	return m.gaps
 }

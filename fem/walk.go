@@ -17,8 +17,8 @@ import (
 // agree) or Gauss–Legendre rules exact for the degrees involved, with no
 // sampling; bounds skip what cannot change a result. Consumers are
 // Visitors (the summary's extremes, the error comparison, the checks'
-// probes) or range over Solution.Elements (the drawing's pixel columns,
-// the CSV rows).
+// probes, the drawing's pixel columns and largest gaps) or range over
+// Solution.Elements (the CSV rows).
 
 // Interval is one interval of the member, an element or a stretch of the
 // exact solution between key points, with every result quantity on it as a
@@ -656,10 +656,20 @@ const parallelWalk = 4096
 // the visitors on a second goroutine; the halves depend on the mesh alone,
 // so the answer is the same on any number of cores.
 func Walk(s *Solution, e *Exact, vs ...Visitor) {
+	if s == nil {
+		return
+	}
+	WalkElements(s, e, 0, len(s.fields), vs...)
+}
+
+// WalkElements is Walk over the elements from ≤ i < to alone (a drawing's
+// visible ones): from parallelWalk of them on, the second half of them goes
+// to forks of the visitors.
+func WalkElements(s *Solution, e *Exact, from, to int, vs ...Visitor) {
 	if s == nil || len(vs) == 0 {
 		return
 	}
-	n := len(s.fields)
+	from, to = max(from, 0), min(to, len(s.fields))
 	visit := func(from, to int, vs []Visitor) {
 		for v := range s.Elements(e, from, to) {
 			for _, c := range vs {
@@ -667,20 +677,21 @@ func Walk(s *Solution, e *Exact, vs ...Visitor) {
 			}
 		}
 	}
-	if n < parallelWalk {
-		visit(0, n, vs)
+	if to-from < parallelWalk {
+		visit(from, to, vs)
 		return
 	}
+	mid := from + (to-from)/2
 	later := make([]Visitor, len(vs))
 	for i, v := range vs {
 		later[i] = v.Fork()
 	}
 	done := make(chan struct{})
 	go func() {
-		visit(n/2, n, later)
+		visit(mid, to, later)
 		close(done)
 	}()
-	visit(0, n/2, vs)
+	visit(from, mid, vs)
 	<-done
 	for i, v := range vs {
 		v.Join(later[i])
