@@ -599,21 +599,45 @@ func cubicTaylorShift(p *Polynomial, t0, scale float64) {
 // stretch. It yields one Interval, reused for each stretch: copy what you
 // keep. (A slice of them all, as Intervals returned before, was about a
 // kilobyte a stretch, made three times per drag step on a beam of 1,000
-// loads.)
+// loads.) The intervals' ranges (Range) are the exact solution's own,
+// worked out for every quantity the first time it is asked: the summary,
+// the comparison, the checks and the drawing each took them anew before.
 func (e *Exact) EachInterval() iter.Seq2[int, *Interval] {
 	return func(yield func(int, *Interval) bool) {
 		if e == nil {
 			return
 		}
+		ranges := e.stretchRanges()
 		var v Interval
 		for j := range e.stretches {
 			s := &e.stretches[j]
 			s.interval(0, 1, s.start, s.end, &v)
+			v.ranges, v.known = ranges[j], allRanges
 			if !yield(j, &v) {
 				return
 			}
 		}
 	}
+}
+
+// allRanges has the bit of every quantity in Interval.known.
+const allRanges = 1<<quantityCount - 1
+
+// stretchRanges are the ranges of every quantity on each stretch
+// (Exact.ranges), worked out the first time they are asked for.
+func (e *Exact) stretchRanges() [][quantityCount][2]extremum {
+	e.rangesOnce.Do(func() {
+		e.ranges = make([][quantityCount][2]extremum, len(e.stretches))
+		var v Interval
+		for j := range e.stretches {
+			s := &e.stretches[j]
+			s.interval(0, 1, s.start, s.end, &v)
+			for q := range Quantity(quantityCount) {
+				v.rangeOf(q, &e.ranges[j][q])
+			}
+		}
+	})
+	return e.ranges
 }
 
 // Elements returns the elements from ≤ i < to of s, in order along the
