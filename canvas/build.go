@@ -407,15 +407,17 @@ type formatKey struct {
 	bits uint64
 }
 
-// wrap breaks s into lines no wider than w pixels. A line's width is taken
-// as the sum of its words' and spaces' widths, each measured once: the
-// kerning between a space and a word is far below a pixel.
-func wrap(s string, size float32, bold bool, w float32) []string {
+// wrap breaks s into lines no wider than w pixels, measuring texts with
+// measure (textWidth, or a builder's, which remembers the widths for the
+// next drawing). A line's width is taken as the sum of its words' and
+// spaces' widths, each measured once: the kerning between a space and a
+// word is far below a pixel.
+func wrap(s string, size float32, bold bool, w float32, measure func(s string, size float32, bold bool) float32) []string {
 	var lines []string
 	cur, curW := "", float32(0)
-	space := textWidth(" ", size, bold)
+	space := measure(" ", size, bold)
 	for _, word := range strings.Fields(s) {
-		ww := textWidth(word, size, bold)
+		ww := measure(word, size, bold)
 		if cur != "" && curW+space+ww > w {
 			lines = append(lines, cur)
 			cur, curW = "", 0
