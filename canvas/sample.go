@@ -514,6 +514,7 @@ func (c *Cache) read(s *fem.Solution, v View, qs []fem.Quantity, e *fem.Exact, g
 		w.finish()
 	}
 	if g != nil {
+		g.values(s, e)
 		c.gapMemo = gapMemo{s, e, g.qs, g.gaps}
 	}
 	var gaps []gap

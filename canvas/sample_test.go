@@ -142,6 +142,7 @@ func TestOneWalkReadsCurvesAndGapsAsTwo(t *testing.T) {
 			wantCurves, _ := apart.read(in.Solution, v, qs, nil, nil)
 			finder := newGapFinder(qs[1:])
 			fem.Walk(in.Solution, in.Exact, finder)
+			finder.values(in.Solution, in.Exact)
 			gotCurves, gotGaps := (&Cache{}).read(in.Solution, v, qs, in.Exact, qs[1:])
 			for i, q := range qs {
 				g, w := gotCurves[i], wantCurves[i]
