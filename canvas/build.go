@@ -119,19 +119,22 @@ func build(in Input, v View) *builder {
 		}
 		b.rectangle(x0, 0, x1, v.Height, highlightColour)
 	}
-	// One walk over the visible elements reads the deflection and every
+	// A walk over the visible elements reads the deflection and every
 	// strip; one over them all with the exact solution, when it is shown,
-	// finds each strip's largest gap.
+	// finds each strip's largest gap; one walk reads both when it can
+	// (Cache.read).
 	if in.Solution != nil {
 		qs := []fem.Quantity{fem.QDeflection}
 		for _, st := range lay.strips {
 			qs = append(qs, st.diagram.quantity)
 		}
-		cs := in.Cache.curves(in.Solution, v, qs)
-		b.deflection, b.feCurves = cs[0], cs[1:]
-		if e := b.exact(); e != nil && len(lay.strips) > 0 {
-			b.gaps = in.Cache.gaps(in.Solution, e, qs[1:])
+		var e *fem.Exact
+		if len(lay.strips) > 0 {
+			e = b.exact()
 		}
+		var cs []*curve
+		cs, b.gaps = in.Cache.read(in.Solution, v, qs, e, qs[1:])
+		b.deflection, b.feCurves = cs[0], cs[1:]
 	}
 	b.sketch(lay)
 	if lay.nodal != nil {
@@ -404,15 +407,17 @@ type formatKey struct {
 	bits uint64
 }
 
-// wrap breaks s into lines no wider than w pixels. A line's width is taken
-// as the sum of its words' and spaces' widths, each measured once: the
-// kerning between a space and a word is far below a pixel.
-func wrap(s string, size float32, bold bool, w float32) []string {
+// wrap breaks s into lines no wider than w pixels, measuring texts with
+// measure (textWidth, or a builder's, which remembers the widths for the
+// next drawing). A line's width is taken as the sum of its words' and
+// spaces' widths, each measured once: the kerning between a space and a
+// word is far below a pixel.
+func wrap(s string, size float32, bold bool, w float32, measure func(s string, size float32, bold bool) float32) []string {
 	var lines []string
 	cur, curW := "", float32(0)
-	space := textWidth(" ", size, bold)
+	space := measure(" ", size, bold)
 	for _, word := range strings.Fields(s) {
-		ww := textWidth(word, size, bold)
+		ww := measure(word, size, bold)
 		if cur != "" && curW+space+ww > w {
 			lines = append(lines, cur)
 			cur, curW = "", 0

@@ -274,7 +274,7 @@ const minPlot = 36
 // its lowest point.
 func (b *builder) footer(texts []string, innerTop, bottom float32) float32 {
 	for _, t := range texts {
-		lines := wrap(t, smallSize, false, b.v.Width-16)
+		lines := wrap(t, smallSize, false, b.v.Width-16, b.textWidth)
 		if top := bottom - 3 - TextHeight(smallSize)*float32(len(lines)); top-10-innerTop >= minPlot {
 			return b.paragraph(lines, 8, bottom-3, smallSize, faintColour) - 10
 		}

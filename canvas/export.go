@@ -27,7 +27,7 @@ func WriteImage(w io.Writer, format string, in Input, width, height float32, sca
 	if note != "" {
 		// Wrapped to the drawing, but no narrower than the caution's one
 		// line: a drawing too narrow for that has no room for either.
-		lines = append(wrap(note, smallSize, false, max(width-16, textWidth(Caution, smallSize, false))), lines...)
+		lines = append(wrap(note, smallSize, false, max(width-16, textWidth(Caution, smallSize, false)), textWidth), lines...)
 	}
 	footer := float32(len(lines)) * footerHeight
 	if err := checkSize(&Scene{Width: width, Height: height}, rasterScale(format, scale)); err != nil {

@@ -1,10 +1,6 @@
 package canvas
 
-import (
-	"slices"
-
-	"stave/fem"
-)
+import "stave/fem"
 
 // The largest gap between the finite element and the exact solution of
 // each diagram, over the whole member, in closed form (ElementView.Gap), so
@@ -16,6 +12,10 @@ import (
 type gap struct {
 	at        extreme // where it is and how large
 	fe, exact float64
+	// element and xi are where it is in the mesh: the element and the
+	// local coordinate at which gapFinder.values reads fe and exact.
+	element int
+	xi      float64
 }
 
 // tie is the relative margin within which two values count as equal: a
@@ -25,7 +25,8 @@ type gap struct {
 const tie = 1e-9
 
 // gapFinder takes the largest gap of each of its quantities in a walk over
-// the elements with the exact solution (a fem.Visitor).
+// the elements with the exact solution (a fem.Visitor), and then, in
+// values, the two solutions' values there.
 type gapFinder struct {
 	qs   []fem.Quantity
 	gaps []gap
@@ -43,10 +44,26 @@ func (w *gapFinder) Visit(v *fem.ElementView) {
 		if !ok || p.Value <= floor {
 			continue
 		}
-		xi := (p.X - v.Start) / (v.End - v.Start)
-		v.FE.At(xi, &w.f)
-		v.Exact.At(xi, &w.g)
-		w.gaps[i] = gap{extreme{p.X, p.Value}, q.Of(&w.f), q.Of(&w.g)}
+		w.gaps[i] = gap{at: extreme{p.X, p.Value}, element: v.Index, xi: (p.X - v.Start) / (v.End - v.Start)}
+	}
+}
+
+// values reads the values of both solutions at each gap found, s and e
+// being those walked: once, after the walk, for the largest gaps alone.
+// Read at every larger gap met on the way, as they were before, they cost
+// more than the search itself on a beam under a growing load, where a
+// third of the elements beat the largest gap so far.
+func (w *gapFinder) values(s *fem.Solution, e *fem.Exact) {
+	for i := range w.gaps {
+		p := &w.gaps[i]
+		if !(p.at.value > 0) { // none found: the walk takes only gaps above 0
+			continue
+		}
+		for v := range s.Elements(e, p.element, p.element+1) {
+			v.FE.At(p.xi, &w.f)
+			v.Exact.At(p.xi, &w.g)
+		}
+		p.fe, p.exact = w.qs[i].Of(&w.f), w.qs[i].Of(&w.g)
 	}
 }
 
@@ -61,28 +78,11 @@ func (w *gapFinder) Join(later fem.Visitor) {
 }
 
 // gapMemo keeps the largest gaps of one solution against one exact
-// solution between builds: they depend on neither the view nor the hover.
+// solution between builds (Cache.read): they depend on neither the view
+// nor the hover.
 type gapMemo struct {
 	solution *fem.Solution
 	exact    *fem.Exact
 	qs       []fem.Quantity
 	gaps     []gap
-}
-
-// gaps returns the largest gap of each of qs between s and e, walking the
-// elements only when s, e or qs changed since the last call; c may be nil.
-func (c *Cache) gaps(s *fem.Solution, e *fem.Exact, qs []fem.Quantity) []gap {
-	var m gapMemo
-	if c != nil {
-		m = c.gapMemo
-	}
-	if m.solution != s || m.exact != e || !slices.Equal(m.qs, qs) {
-		w := newGapFinder(slices.Clone(qs))
-		fem.Walk(s, e, w)
-		m = gapMemo{s, e, w.qs, w.gaps}
-	}
-	if c != nil {
-		c.gapMemo = m
-	}
-	return m.gaps
 }

@@ -37,7 +37,7 @@ func (b *builder) legendRow(items []legendItem, x0, y, x1 float32) float32 {
 	x := x0
 	rowH := float32(0)
 	for _, it := range items {
-		w := it.width + textWidth(it.text, it.size, it.bold)
+		w := it.width + b.textWidth(it.text, it.size, it.bold)
 		if it.width > 0 {
 			w += 4
 		}
@@ -54,7 +54,7 @@ func (b *builder) legendRow(items []legendItem, x0, y, x1 float32) float32 {
 		l := text1(it.text, it.size, it.colour, it.bold, labelSpot{x, y, 0, 0})
 		l.plain, l.optional = true, true
 		b.place(l)
-		x += textWidth(it.text, it.size, it.bold) + 12
+		x += b.textWidth(it.text, it.size, it.bold) + 12
 	}
 	return y + rowH
 }

@@ -350,14 +350,14 @@ func WriteMovingSheet(w io.Writer, format string, in MovingSheet) error {
 	sh.y += TextHeight(13) + 2
 	n := in.Notes
 	notes := fmt.Sprintf("Project: %s · Member: %s · Engineer: %s · Date: %s · Stave %s · Units: %s", n.Project, n.Mark, n.Engineer, n.Date, n.Version, u.Name)
-	for _, ln := range wrap(notes, sheetSmall+0.5, false, right-sheetEdge) {
+	for _, ln := range wrap(notes, sheetSmall+0.5, false, right-sheetEdge, textWidth) {
 		sh.row([]string{ln}, []float32{sheetEdge}, sheetSmall+0.5, inkColour, false)
 	}
 	b.line(inkColour, 1, Point{sheetEdge, sh.y + 1}, Point{right, sh.y + 1})
 	sh.y += 4
 	sh.heading("Train and influence line")
 	for _, line := range in.About {
-		for _, ln := range wrap(line, sheetSmall, false, right-sheetEdge) {
+		for _, ln := range wrap(line, sheetSmall, false, right-sheetEdge, textWidth) {
 			sh.row([]string{ln}, []float32{sheetEdge}, sheetSmall, inkColour, false)
 		}
 	}
@@ -390,7 +390,7 @@ func WriteMovingSheet(w io.Writer, format string, in MovingSheet) error {
 		sh.row(r, xs, sheetSmall, inkColour, false)
 	}
 	b.line(inkColour, 0.75, Point{sheetEdge, foot - 4}, Point{right, foot - 4})
-	for i, ln := range wrap(Caution, sheetText, true, right-sheetEdge) {
+	for i, ln := range wrap(Caution, sheetText, true, right-sheetEdge, textWidth) {
 		b.text(ln, sheetEdge, foot+float32(i)*TextHeight(sheetText), sheetText, 0, 0, inkColour, true)
 	}
 	return writeScene(w, b.scene(), format, float64(sheetDPI)/72)

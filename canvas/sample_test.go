@@ -3,14 +3,15 @@ package canvas
 import (
 	"fmt"
 	"math"
+	"slices"
 	"testing"
 
 	"stave/fem"
 )
 
-// sampledByAt is how the curves were read before sampleCurves took a narrow
+// sampledByAt is how the curves were read before the sampler took a narrow
 // element's end from its start: every sample through Solution.At, one after
-// the other, each element's end included but where sampleElements leaves it
+// the other, each element's end included but where the sampler leaves it
 // out as a repeat (a nodal quantity's end before the next element, a constant
 // quantity's end in an element narrower than a pixel).
 func sampledByAt(s *fem.Solution, v View, qs []fem.Quantity) []*curve {
@@ -50,12 +51,12 @@ func sampledByAt(s *fem.Solution, v View, qs []fem.Quantity) []*curve {
 	return cs
 }
 
-// The curves sampleCurves draws must be those of reading every element end
+// The curves the sampler draws must be those of reading every element end
 // through At: the same samples in every pixel column, first and last at the
 // same places, and values equal to round-off (a narrow element's end moment is
 // its start moment plus V·h, its end stress is recomputed from N and M).
 // Covers wide and narrow elements, both bar orders, a zoomed view and enough
-// elements for the two-goroutine read.
+// elements for the two-goroutine read (fem.WalkElements: from 4,096 on).
 func TestSampleCurvesMatchReadingEveryEnd(t *testing.T) {
 	var drawn []fem.Quantity
 	for _, d := range diagramsList {
@@ -76,8 +77,8 @@ func TestSampleCurvesMatchReadingEveryEnd(t *testing.T) {
 		{3000, fem.LinearBar, 40, drawn},
 		{3000, fem.LinearBar, 1, []fem.Quantity{fem.QDeflection}},
 		{3000, fem.LinearBar, 1, append([]fem.Quantity{rotation}, drawn...)},
-		{2 * parallelElements, fem.LinearBar, 1, drawn},
-		{2 * parallelElements, fem.QuadraticBar, 1, drawn},
+		{8192, fem.LinearBar, 1, drawn},
+		{8192, fem.QuadraticBar, 1, drawn},
 	} {
 		qs := c.qs
 		t.Run(fmt.Sprintf("%d elements, bar order %d, zoom %g, %s…", c.elements, c.order, c.zoom, qs[0]), func(t *testing.T) {
@@ -93,8 +94,7 @@ func TestSampleCurvesMatchReadingEveryEnd(t *testing.T) {
 			v := NewView(1100, 800)
 			v.Fit(m)
 			v.Zoom(c.zoom, 500)
-			var got, half []*curve
-			sampleCurves(s, v, qs, grow(&got, len(qs)), grow(&half, len(qs)))
+			got, _ := (&Cache{}).read(s, v, qs, nil, nil)
 			want := sampledByAt(s, v, qs)
 			for i, q := range qs {
 				g, w := got[i], want[i]
@@ -114,6 +114,49 @@ func TestSampleCurvesMatchReadingEveryEnd(t *testing.T) {
 						}
 					}
 				}
+			}
+		})
+	}
+}
+
+// One walk that reads the curves and the largest gaps together (the whole
+// member in view, both read anew) must give what the two walks give apart,
+// to the bit: the same samples in every column, the same closed-form peaks
+// and the same gaps at the same places. Zoomed in, the curves take their own
+// walk over the visible elements, and the result is the same again. Covers
+// a mesh walked in one piece and one walked in two halves.
+func TestOneWalkReadsCurvesAndGapsAsTwo(t *testing.T) {
+	qs := []fem.Quantity{fem.QDeflection, fem.QShearForce, fem.QBendingMoment, fem.QCombinedStress}
+	for _, c := range []struct {
+		elements int
+		zoom     float32
+	}{{300, 1}, {8192, 1}, {8192, 40}} {
+		t.Run(fmt.Sprintf("%d elements, zoom %g", c.elements, c.zoom), func(t *testing.T) {
+			in := solved(t, demoModel(c.elements))
+			v := NewView(1100, 800)
+			v.Fit(in.Model)
+			v.Zoom(c.zoom, 500)
+			// Apart: the curves without the exact solution, then the gaps
+			// alone.
+			apart := &Cache{}
+			wantCurves, _ := apart.read(in.Solution, v, qs, nil, nil)
+			finder := newGapFinder(qs[1:])
+			fem.Walk(in.Solution, in.Exact, finder)
+			finder.values(in.Solution, in.Exact)
+			gotCurves, gotGaps := (&Cache{}).read(in.Solution, v, qs, in.Exact, qs[1:])
+			for i, q := range qs {
+				g, w := gotCurves[i], wantCurves[i]
+				if g.n != w.n || g.lo != w.lo || g.hi != w.hi || g.peakLo != w.peakLo || g.peakHi != w.peakHi ||
+					!slices.Equal(g.cols, w.cols) {
+					t.Errorf("%s: read with the gaps, %d samples from %+v to %+v, peaks %+v and %+v; read alone, %d from %+v to %+v, peaks %+v and %+v",
+						q, g.n, g.lo, g.hi, g.peakLo, g.peakHi, w.n, w.lo, w.hi, w.peakLo, w.peakHi)
+				}
+			}
+			if !slices.Equal(gotGaps, finder.gaps) {
+				t.Errorf("gaps read with the curves %+v, walked alone %+v", gotGaps, finder.gaps)
+			}
+			if slices.ContainsFunc(gotGaps, func(g gap) bool { return g.at.value == 0 }) {
+				t.Errorf("gaps %+v: zero gaps would agree whatever the walk, and every diagram of this model has one", gotGaps)
 			}
 		})
 	}

@@ -73,7 +73,7 @@ func (sh *sheet) row(cols []string, xs []float32, size float32, c color.NRGBA, b
 
 // para writes text wrapped to the page width in small type.
 func (sh *sheet) para(text string, c color.NRGBA) {
-	for _, ln := range wrap(text, sheetSmall, false, a4Width-2*sheetEdge) {
+	for _, ln := range wrap(text, sheetSmall, false, a4Width-2*sheetEdge, textWidth) {
 		sh.row([]string{ln}, []float32{sheetEdge}, sheetSmall, c, false)
 	}
 }
@@ -138,7 +138,7 @@ func buildSheet(in SheetInput) *Scene {
 		sh.resultsTable(fem.Summarize(in.Input.Solution, in.Input.Exact), in.Mesh, u)
 	} else if in.Input.Problem != "" {
 		sh.heading("Results")
-		for _, ln := range wrap(in.Input.Problem, sheetText, true, right-sheetEdge) {
+		for _, ln := range wrap(in.Input.Problem, sheetText, true, right-sheetEdge, textWidth) {
 			sh.row([]string{ln}, []float32{sheetEdge}, sheetText, problemColour, true)
 		}
 	}
@@ -148,7 +148,7 @@ func buildSheet(in SheetInput) *Scene {
 	// The caution sits at the foot of the page whatever the content above.
 	foot := float32(a4Height - sheetEdge - 2*TextHeight(sheetText))
 	b.line(inkColour, 0.75, Point{sheetEdge, foot - 4}, Point{right, foot - 4})
-	for i, ln := range wrap(Caution, sheetText, true, right-sheetEdge) {
+	for i, ln := range wrap(Caution, sheetText, true, right-sheetEdge, textWidth) {
 		b.text(ln, sheetEdge, foot+float32(i)*TextHeight(sheetText), sheetText, 0, 0, inkColour, true)
 	}
 	return b.scene()
@@ -187,7 +187,7 @@ func (sh *sheet) reserve(in SheetInput) float32 {
 		if len(list) > 0 {
 			h += 25
 			for _, c := range list {
-				h += line * float32(len(wrap("• "+c, sheetText, false, a4Width-2*sheetEdge)))
+				h += line * float32(len(wrap("• "+c, sheetText, false, a4Width-2*sheetEdge, textWidth)))
 			}
 		}
 	}
@@ -202,7 +202,7 @@ func (sh *sheet) list(title string, lines []string, c color.NRGBA) {
 	}
 	sh.heading(title)
 	for _, l := range lines {
-		for _, ln := range wrap("• "+l, sheetText, false, a4Width-2*sheetEdge) {
+		for _, ln := range wrap("• "+l, sheetText, false, a4Width-2*sheetEdge, textWidth) {
 			sh.row([]string{ln}, []float32{sheetEdge}, sheetText, c, false)
 		}
 	}

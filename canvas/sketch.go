@@ -693,7 +693,7 @@ func intensityAt(pts []fem.LoadPoint, x float64) float64 {
 // so later labels keep off them, and the box behind them when the
 // returned function is called, after the rest of the sketch.
 func (b *builder) problem(lay layoutBands) (box func()) {
-	lines := wrap(b.in.Problem, problemSize, true, b.v.Width-60)
+	lines := wrap(b.in.Problem, problemSize, true, b.v.Width-60, b.textWidth)
 	h := TextHeight(problemSize)
 	y := lay.top + 30
 	if b.in.Unreliable { // below the "UNRELIABLE RESULTS" line, not over it
@@ -701,7 +701,7 @@ func (b *builder) problem(lay layoutBands) (box func()) {
 	}
 	wmax := float32(0)
 	for _, ln := range lines {
-		wmax = max(wmax, textWidth(ln, problemSize, true))
+		wmax = max(wmax, b.textWidth(ln, problemSize, true))
 	}
 	cx := b.v.Width / 2
 	r := rect{cx - wmax/2 - 10, y - 4, cx + wmax/2 + 10, y + h*float32(len(lines)) + 4}
@@ -794,7 +794,7 @@ func (b *builder) dimension(xa, xb float64, y float32, prefix string) {
 		b.symbol(rect{p - 3, y - 4, p + 3, y + 4})
 	}
 	s := prefix + b.format(units.Position, xb-xa)
-	if textWidth(s, smallSize, false)+6 < pb-pa {
+	if b.textWidth(s, smallSize, false)+6 < pb-pa {
 		b.place(label{lines: []string{s}, size: smallSize, colour: dimensionColour, at: Point{(pa + pb) / 2, y},
 			spots: []labelSpot{{(pa + pb) / 2, y - 2, 0.5, 1}}})
 	}

@@ -29,6 +29,11 @@ type Exact struct {
 	keys      []float64 // key points in increasing order: keys[0] = 0, last = L
 	stretches []exactStretch
 	reactions []Reaction
+	// ranges are the stretches' ranges of every quantity (Interval.Range),
+	// worked out once, when EachInterval is first asked (rangesOnce): the
+	// summary, the comparison, the checks and the drawing all read them.
+	rangesOnce sync.Once
+	ranges     [][quantityCount][2]extremum
 }
 
 // exactStretch is the part of the member between two neighbouring key points.

@@ -270,8 +270,9 @@ func (x *extremes) list() []Extreme {
 	return out
 }
 
-// exactExtremes are the extremes of e, stretch by stretch in closed form,
-// on one reused interval. A second pass takes values within extremeTie of
+// exactExtremes are the extremes of e, stretch by stretch in closed form
+// (Exact.EachInterval, whose ranges the comparison, the checks and the
+// drawing read too). A second pass takes values within extremeTie of
 // each field's largest magnitude as ties, so that of the supports where a
 // deflection is zero to round-off the first is named, as the finite
 // element walk names it. The second pass takes the points the first
@@ -279,13 +280,10 @@ func (x *extremes) list() []Extreme {
 // out again: on a beam of 1,000 loads the stretches' ranges were half of
 // the summary.
 func exactExtremes(e *Exact) *extremes {
-	var v Interval
 	takes := make([]stretchTakes, len(e.stretches))
 	first := newExtremes()
-	for j := range e.stretches {
-		st := &e.stretches[j]
-		st.interval(0, 1, st.start, st.end, &v)
-		takes[j].of(&v)
+	for j, v := range e.EachInterval() {
+		takes[j].of(v)
 		takes[j].into(first)
 	}
 	second := newExtremes()

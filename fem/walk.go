@@ -17,8 +17,8 @@ import (
 // agree) or Gauss–Legendre rules exact for the degrees involved, with no
 // sampling; bounds skip what cannot change a result. Consumers are
 // Visitors (the summary's extremes, the error comparison, the checks'
-// probes) or range over Solution.Elements (the drawing's pixel columns,
-// the CSV rows).
+// probes, the drawing's pixel columns and largest gaps) or range over
+// Solution.Elements (the CSV rows).
 
 // Interval is one interval of the member, an element or a stretch of the
 // exact solution between key points, with every result quantity on it as a
@@ -599,21 +599,45 @@ func cubicTaylorShift(p *Polynomial, t0, scale float64) {
 // stretch. It yields one Interval, reused for each stretch: copy what you
 // keep. (A slice of them all, as Intervals returned before, was about a
 // kilobyte a stretch, made three times per drag step on a beam of 1,000
-// loads.)
+// loads.) The intervals' ranges (Range) are the exact solution's own,
+// worked out for every quantity the first time it is asked: the summary,
+// the comparison, the checks and the drawing each took them anew before.
 func (e *Exact) EachInterval() iter.Seq2[int, *Interval] {
 	return func(yield func(int, *Interval) bool) {
 		if e == nil {
 			return
 		}
+		ranges := e.stretchRanges()
 		var v Interval
 		for j := range e.stretches {
 			s := &e.stretches[j]
 			s.interval(0, 1, s.start, s.end, &v)
+			v.ranges, v.known = ranges[j], allRanges
 			if !yield(j, &v) {
 				return
 			}
 		}
 	}
+}
+
+// allRanges has the bit of every quantity in Interval.known.
+const allRanges = 1<<quantityCount - 1
+
+// stretchRanges are the ranges of every quantity on each stretch
+// (Exact.ranges), worked out the first time they are asked for.
+func (e *Exact) stretchRanges() [][quantityCount][2]extremum {
+	e.rangesOnce.Do(func() {
+		e.ranges = make([][quantityCount][2]extremum, len(e.stretches))
+		var v Interval
+		for j := range e.stretches {
+			s := &e.stretches[j]
+			s.interval(0, 1, s.start, s.end, &v)
+			for q := range Quantity(quantityCount) {
+				v.rangeOf(q, &e.ranges[j][q])
+			}
+		}
+	})
+	return e.ranges
 }
 
 // Elements returns the elements from ≤ i < to of s, in order along the
@@ -656,10 +680,20 @@ const parallelWalk = 4096
 // the visitors on a second goroutine; the halves depend on the mesh alone,
 // so the answer is the same on any number of cores.
 func Walk(s *Solution, e *Exact, vs ...Visitor) {
+	if s == nil {
+		return
+	}
+	WalkElements(s, e, 0, len(s.fields), vs...)
+}
+
+// WalkElements is Walk over the elements from ≤ i < to alone (a drawing's
+// visible ones): from parallelWalk of them on, the second half of them goes
+// to forks of the visitors.
+func WalkElements(s *Solution, e *Exact, from, to int, vs ...Visitor) {
 	if s == nil || len(vs) == 0 {
 		return
 	}
-	n := len(s.fields)
+	from, to = max(from, 0), min(to, len(s.fields))
 	visit := func(from, to int, vs []Visitor) {
 		for v := range s.Elements(e, from, to) {
 			for _, c := range vs {
@@ -667,20 +701,21 @@ func Walk(s *Solution, e *Exact, vs ...Visitor) {
 			}
 		}
 	}
-	if n < parallelWalk {
-		visit(0, n, vs)
+	if to-from < parallelWalk {
+		visit(from, to, vs)
 		return
 	}
+	mid := from + (to-from)/2
 	later := make([]Visitor, len(vs))
 	for i, v := range vs {
 		later[i] = v.Fork()
 	}
 	done := make(chan struct{})
 	go func() {
-		visit(n/2, n, later)
+		visit(mid, to, later)
 		close(done)
 	}()
-	visit(0, n/2, vs)
+	visit(from, mid, vs)
 	<-done
 	for i, v := range vs {
 		v.Join(later[i])
