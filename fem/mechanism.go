@@ -58,13 +58,14 @@ func checkMechanism(m *Model, bending bool) error {
 		return &MechanismError{Motion: "axial", Message: "the member can slide along its axis: add an axial restraint (pinned, fixed, axial or spring support)"}
 	case !bending:
 		return nil
+	case len(deflection) == 0 && !ground:
+		// Whatever its hinges: their parts' many motions name no place.
+		return &MechanismError{Motion: "transverse", Message: "the member can move sideways: add a support that restrains deflection",
+			Parts: []MechanismPart{{Start: 0, End: m.Length(), Offset: 1}}}
 	case slices.ContainsFunc(m.Hinges, func(h Hinge) bool { return h.Stiffness == 0 }):
 		return hingeMechanism(m)
 	case ground:
 		return nil
-	case len(deflection) == 0:
-		return &MechanismError{Motion: "transverse", Message: "the member can move sideways: add a support that restrains deflection",
-			Parts: []MechanismPart{{Start: 0, End: m.Length(), Offset: 1}}}
 	case len(deflection) == 1 && !rotation:
 		L := m.Length()
 		return &MechanismError{Motion: "rotation", Message: fmt.Sprintf("the member can rotate about the support at x = %s: add a second support or fix one end", fmtMetres(deflection[0])),

@@ -96,7 +96,8 @@ func TestHingeMechanismCases(t *testing.T) {
 // its hinges with "remove a hinge" as a remedy. A member on one pin with a
 // semi-rigid joint was refused with "the part from x = 0.0 m to 1.3 m can
 // turn about x = 10.1 m, the part from x = 1.3 m to 12.4 m can turn about
-// x = 10.1 m; ... or remove a hinge". A pure hinge beside a semi-rigid one
+// x = 10.1 m; ... or remove a hinge". A member that nothing holds across
+// is told so, whatever its hinges. A pure hinge beside a semi-rigid one
 // still names the part it frees, whole.
 func TestMechanismAcrossSemiRigidHinges(t *testing.T) {
 	const L = 12.4
@@ -110,6 +111,10 @@ func TestMechanismAcrossSemiRigidHinges(t *testing.T) {
 		{"one pin and a semi-rigid joint", []Hinge{{X: 1.3, Stiffness: 1e6}}, []Support{{X: 10.1, Kind: Pinned}},
 			"rotation", "the member can rotate about the support at x = 10.1 m: add a second support or fix one end"},
 		{"nothing across and a semi-rigid joint", []Hinge{{X: 6, Stiffness: 1e6}}, []Support{{X: 0, Kind: AxialOnly}},
+			"transverse", "the member can move sideways: add a support that restrains deflection"},
+		// Nothing across the member and a pure hinge: the motions are many,
+		// and one the chain's sweep picks turned both parts about x = -8.33 m.
+		{"nothing across and a pure hinge", []Hinge{{X: 6}}, []Support{{X: 0, Kind: AxialOnly}},
 			"transverse", "the member can move sideways: add a support that restrains deflection"},
 		{"a pure hinge past a semi-rigid joint in a cantilever", []Hinge{{X: 2, Stiffness: 1e6}, {X: 4}}, []Support{{X: 0, Kind: Fixed}},
 			"hinge", "with its hinges the member is a mechanism: the part from x = 4.0 m to 12.4 m can turn about x = 4.0 m;"},
