@@ -9,6 +9,7 @@ package fem_test
 // fem.Summarize reports them, positions included.
 
 import (
+	"fmt"
 	"math"
 	"testing"
 
@@ -393,6 +394,43 @@ func beamHandbookCases() []beamCase {
 			reported: []reportedExtreme{
 				{fem.QDeflection, true, theta * 4 * L / 27, L / 3},
 				{fem.QBendingMoment, false, -4 * EI * theta / L, 0},
+			},
+		})
+	}
+	for _, reach := range []float64{6, 3} {
+		// Cantilever of length L, load rising uniformly from nothing at
+		// x = reach to w at the fixed end: W = w·reach/2, M(0) = −W·reach/3,
+		// deflection W·reach³/(15EI) and rotation W·reach²/(12EI) at x = reach
+		// (AISC Manual, Beam Diagrams and Formulas, cantilever beam, load
+		// increasing uniformly to fixed end; rotation by integrating M/EI, Gere
+		// & Goodno, Mechanics of Materials, ch. 9; from memory), the member
+		// straight beyond. M, V and q vanish together at x = reach, so the
+		// rotation is flat there to the fourth order: its extreme is named at
+		// x = reach (the first place it is reached), not a hair inside where a
+		// root of M found to round-off ties with it.
+		const L, q = 6.0, -7e3
+		W := q * reach / 2
+		theta := W * reach * reach / (12 * EI)
+		tip := W*reach*reach*reach/(15*EI) + theta*(L-reach)
+		cases = append(cases, beamCase{
+			refCase: refCase{
+				name: fmt.Sprintf("cantilever, load rising to the fixed end from x = %g m", reach),
+				model: fem.Model{Segments: refMember(L),
+					Supports:        []fem.Support{{X: 0, Kind: fem.Fixed}},
+					DistributedLoad: []fem.DistributedLoad{transverse(0, q, reach, 0)}},
+				reactions: [][3]float64{{0, -W, -W * reach / 3}},
+				points: []pointCheck{
+					{x: L, q: deflection, want: tip},
+					{x: L, q: rotation, want: theta},
+					{x: 0, q: bendingMoment, want: W * reach / 3},
+				},
+				extremes: []extremeCheck{
+					{q: bendingMoment, want: W * reach / 3, x: 0},
+				},
+			},
+			reported: []reportedExtreme{
+				{fem.QRotation, false, theta, reach},
+				{fem.QDeflection, false, tip, L},
 			},
 		})
 	}

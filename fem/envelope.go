@@ -579,22 +579,19 @@ func (w *envelopeWalk) patternRange(a *Polynomial, d int) (lo, hi extremum) {
 // rangeBetween is rangeOn on [a, b] ⊂ [0, 1], roots within endSlack of a
 // or b taken as there.
 func rangeBetween(p *Polynomial, d int, a, b float64) (lo, hi extremum) {
-	va := p.at(d, a)
+	va, vb := p.at(d, a), p.at(d, b)
 	lo, hi = extremum{a, va}, extremum{a, va}
+	lo.least(b, vb)
+	hi.most(b, vb)
 	if d >= 2 {
 		dp := p.Derivative()
 		var r [polynomialTerms - 1]float64
 		for _, xi := range r[:dp.roots(&r)] {
 			if within(xi, a, b) {
-				v := p.at(d, xi)
-				lo.least(xi, v)
-				hi.most(xi, v)
+				turn(&lo, &hi, xi, p.at(d, xi))
 			}
 		}
 	}
-	vb := p.at(d, b)
-	lo.least(b, vb)
-	hi.most(b, vb)
 	return lo, hi
 }
 

@@ -1,7 +1,6 @@
 package fem
 
 import (
-	"cmp"
 	"fmt"
 	"math"
 	"slices"
@@ -33,10 +32,12 @@ type MechanismPart struct {
 // checkMechanism looks for rigid-body motions the supports leave free. The
 // bar's rigid motion is u = a; without hinges the beam's are w = a + b·x,
 // which one point of deflection restraint, or one rotation restraint,
-// cannot both stop. Hinges cut the beam into parts, each with its own
-// rigid motion, joined by the deflection (and, through a spring, the
-// rotation) at each hinge: hingeMechanism. Without bending (an axial-only
-// member) only the bar's counts.
+// cannot both stop. Pure hinges cut the beam into parts, each with its own
+// rigid motion, joined by the deflection at each hinge: hingeMechanism. A
+// hinge with a spring across it ties the rotations too, so the parts it
+// joins move as one: it cuts nothing, and a member with no pure hinge is
+// judged as one without hinges. Without bending (an axial-only member)
+// only the bar's counts.
 func checkMechanism(m *Model, bending bool) error {
 	var axial, rotation, ground bool
 	var deflection []float64
@@ -57,13 +58,14 @@ func checkMechanism(m *Model, bending bool) error {
 		return &MechanismError{Motion: "axial", Message: "the member can slide along its axis: add an axial restraint (pinned, fixed, axial or spring support)"}
 	case !bending:
 		return nil
-	case len(m.Hinges) > 0:
+	case len(deflection) == 0 && !ground:
+		// Whatever its hinges: their parts' many motions name no place.
+		return &MechanismError{Motion: "transverse", Message: "the member can move sideways: add a support that restrains deflection",
+			Parts: []MechanismPart{{Start: 0, End: m.Length(), Offset: 1}}}
+	case slices.ContainsFunc(m.Hinges, func(h Hinge) bool { return h.Stiffness == 0 }):
 		return hingeMechanism(m)
 	case ground:
 		return nil
-	case len(deflection) == 0:
-		return &MechanismError{Motion: "transverse", Message: "the member can move sideways: add a support that restrains deflection",
-			Parts: []MechanismPart{{Start: 0, End: m.Length(), Offset: 1}}}
 	case len(deflection) == 1 && !rotation:
 		L := m.Length()
 		return &MechanismError{Motion: "rotation", Message: fmt.Sprintf("the member can rotate about the support at x = %s: add a second support or fix one end", fmtMetres(deflection[0])),
@@ -73,22 +75,24 @@ func checkMechanism(m *Model, bending bool) error {
 }
 
 // hingeMechanism finds a rigid-body motion of the chain of parts between
-// hinges that every support and joint allows. Each part p moves by
+// pure hinges that every support and joint allows. Each part p moves by
 // w(x) = a_p + b_p·(x − cut_p)/L (x scaled by the length, so a and b are
 // alike), and every constraint ties one part or two neighbours: a
 // deflection or rotation restraint, ground under the part, the deflection
-// shared at a hinge and, through a spring, the rotation. The null space of
+// shared at a hinge. A hinge with a spring across it shares the rotation
+// too, which makes the parts it joins one: it is no cut. The null space of
 // those constraints is found in one sweep along the chain (chainSweep),
 // in time linear in the hinges, supports and foundations.
 func hingeMechanism(m *Model) error {
 	L := m.Length()
-	hinges := slices.Clone(m.Hinges)
-	slices.SortFunc(hinges, func(a, b Hinge) int { return cmp.Compare(a.X, b.X) })
-	cuts := make([]float64, 0, len(hinges)+2)
+	cuts := make([]float64, 0, len(m.Hinges)+2)
 	cuts = append(cuts, 0)
-	for _, h := range hinges {
-		cuts = append(cuts, h.X)
+	for _, h := range m.Hinges {
+		if h.Stiffness == 0 {
+			cuts = append(cuts, h.X)
+		}
 	}
+	slices.Sort(cuts)
 	cuts = append(cuts, L)
 	parts := len(cuts) - 1
 	// The constraints on each part alone, rows on (a_p, b_p).
@@ -130,11 +134,7 @@ func hingeMechanism(m *Model) error {
 			continue
 		}
 		// The deflection at the hinge, the end of part p−1, is the start of p's.
-		link := [][2]float64{{1, (cuts[p] - cuts[p-1]) / L}}
-		if hinges[p-1].Stiffness > 0 {
-			link = append(link, [2]float64{0, 1}) // a spring across it ties the rotations
-		}
-		sweep.next(link, rows)
+		sweep.next([][2]float64{{1, (cuts[p] - cuts[p-1]) / L}}, rows)
 	}
 	shape := sweep.motion()
 	if shape == nil {

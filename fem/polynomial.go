@@ -194,15 +194,14 @@ func within(xi, a, b float64) bool { return xi > a+endSlack && xi < b-endSlack }
 // rangeOn returns the smallest and largest value of p, of degree at most d,
 // on [0, 1] in ξ: candidates are the ends, valued v0 and v1 (the element's
 // own values there, see Interval), and the roots of the derivative inside
-// (within), in closed form up to degree 3; the first met along ξ wins a
-// tie.
+// (within), in closed form up to degree 3; the start wins a tie with the
+// end, and a root inside must go beyond both ends by more than a tie (turn).
 func rangeOn(p *Polynomial, d int, v0, v1 float64) (lo, hi extremum) {
-	lo, hi = extremum{0, v0}, extremum{0, v0}
+	lo, hi = endsRange(v0, v1)
 	switch {
 	case d == 2:
 		if xi := -p[1] / (2 * p[2]); within(xi, 0, 1) {
-			lo.least(xi, p.at(2, xi))
-			hi.most(xi, p.at(2, xi))
+			turn(&lo, &hi, xi, p.at(2, xi))
 		}
 	case d == 3:
 		// p' = 3·p3·ξ² + 2·p2·ξ + p1, its roots as quadraticRoots finds them.
@@ -215,9 +214,7 @@ func rangeOn(p *Polynomial, d int, v0, v1 float64) (lo, hi extremum) {
 			}
 			for _, xi := range [2]float64{r0, r1} {
 				if within(xi, 0, 1) {
-					v := p.at(3, xi)
-					lo.least(xi, v)
-					hi.most(xi, v)
+					turn(&lo, &hi, xi, p.at(3, xi))
 				}
 			}
 		}
@@ -226,15 +223,29 @@ func rangeOn(p *Polynomial, d int, v0, v1 float64) (lo, hi extremum) {
 		var r [polynomialTerms - 1]float64
 		for _, xi := range r[:dp.roots(&r)] {
 			if within(xi, 0, 1) {
-				v := p.at(d, xi)
-				lo.least(xi, v)
-				hi.most(xi, v)
+				turn(&lo, &hi, xi, p.at(d, xi))
 			}
 		}
 	}
-	lo.least(1, v1)
-	hi.most(1, v1)
 	return lo, hi
+}
+
+// turn takes the value v of a stationary point inside an interval, at ξ,
+// into lo and hi, which hold the ends' values and any turns before it,
+// where it goes beyond them by more than a tie (Beyond). A turn that only
+// ties with an end is the end's value reached a little inside, where the
+// field is flat: a root of the derivative that is a multiple root at the
+// end, found to round-off. The rotation of a cantilever whose load falls
+// to nothing at its free end turns there with M, V and q all zero, and the
+// triple root of M was found 5e-5 m inside a 6 m member, whose value beat
+// the end's by round-off and named 5.99995 m for the free end's rotation.
+func turn(lo, hi *extremum, xi, v float64) {
+	if Beyond(lo.value, v) {
+		*lo = extremum{xi, v}
+	}
+	if Beyond(v, hi.value) {
+		*hi = extremum{xi, v}
+	}
 }
 
 // turnsInside reports whether p, of degree at most d, may turn inside

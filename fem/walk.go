@@ -121,8 +121,9 @@ func (v *Interval) evaluate(xi float64, f *Fields) {
 // where they are, in closed form: the ends and the roots of the
 // derivative. Where the combined stress jumps inside the interval (the
 // axial stress changes sign under bending, so the other fibre becomes the
-// larger) the value on the side where it is extreme counts. The first
-// place met along the interval wins a tie.
+// larger) the value on the side where it is extreme counts. The start
+// wins a tie with the end, and a turn inside is taken only where it goes
+// beyond both by more than a tie (turn).
 func (v *Interval) Range(q Quantity) (lo, hi Point) {
 	if q < 0 || q >= quantityCount {
 		return Point{X: v.Start}, Point{X: v.Start}
