@@ -63,6 +63,8 @@ func nameOf(o fyne.CanvasObject) string {
 		return "choice " + quoteOr(v.Selected, "")
 	case *widget.Entry:
 		return "field " + quoteOr(v.Text, "")
+	case *escEntry:
+		return "field " + quoteOr(v.Text, "")
 	}
 	return "a " + fyneTypeName(o)
 }

@@ -92,6 +92,8 @@ type Window struct {
 	earlierKept bool
 	// moving is the moving-loads window (train.go) while it is open.
 	moving *movingWindow
+	// dialogs are the dialogs open on the window, for Escape (escape.go).
+	dialogs dialogStack
 }
 
 // options are the parts of a window that tests replace.
