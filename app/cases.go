@@ -58,7 +58,7 @@ func (w *Window) canonical() storage.Project {
 // what to do).
 func (w *Window) validate(m *fem.Model) error {
 	c := lowerCase(*m, w.editCase)
-	err := validate(&c)
+	err := validate(&c, w.units)
 	ve, ok := err.(*fem.ValidationError)
 	if !ok {
 		return err
