@@ -4,6 +4,8 @@ import (
 	"strings"
 	"testing"
 
+	"fyne.io/fyne/v2/widget"
+
 	"stave/fem"
 	"stave/fem/units"
 )
@@ -54,6 +56,31 @@ func TestValidationMessagesInWindowUnits(t *testing.T) {
 		}
 		if !strings.Contains(err.Error(), c.want) || !strings.Contains(w.status.Text, c.want) {
 			t.Errorf("%s in %s: the window says %q, want it to say %q", c.name, c.system.Name, w.status.Text, c.want)
+		}
+	}
+}
+
+// The moving-loads window explains a train it refuses in the window's
+// units too: a US window said "the step is -0.6096 m" for a step typed as
+// -2 (ft). 1 ft = 0.3048 m, 1 kip = 4448.2216152605 N (NIST SP 811 (2008),
+// Appendix B).
+func TestTrainMessagesInWindowUnits(t *testing.T) {
+	for _, c := range []struct {
+		entry func(mw *movingWindow) *widget.Entry
+		typed string
+		want  string
+	}{
+		{func(mw *movingWindow) *widget.Entry { return mw.step }, "-2", "the step is -2 ft: enter a step above zero"},
+		{func(mw *movingWindow) *widget.Entry { return mw.from }, "1000", "the train's run starts at x = 1000 ft, which is not on the member (0 to "},
+		{func(mw *movingWindow) *widget.Entry { return mw.axleRows[0].load }, "-3", "axle 1 has a load of -3 kip: an axle load"},
+	} {
+		w, q, mw := runwayWindow(t)
+		w.setUnits(units.USCustomary)
+		finished(t, w, q)
+		c.entry(mw).SetText(c.typed)
+		mw.apply()
+		if !strings.Contains(mw.status.Text, c.want) {
+			t.Errorf("typed %s: the moving-loads window says %q, want it to say %q", c.typed, mw.status.Text, c.want)
 		}
 	}
 }

@@ -512,7 +512,7 @@ func (mw *movingWindow) apply() {
 	}
 	t, err := mw.readTrain()
 	if err == nil {
-		err = t.Check(mw.w.project.Model.Length(), mw.index)
+		err = t.Check(mw.w.project.Model.Length(), mw.index, mw.w.units)
 	}
 	if err != nil {
 		mw.status.SetText("not applied: " + err.Error())
@@ -584,7 +584,7 @@ func (mw *movingWindow) modelChanged() {
 		return
 	}
 	t := mw.w.project.Trains[mw.index]
-	if err := t.Check(p.Model.Length(), mw.index); err != nil {
+	if err := t.Check(p.Model.Length(), mw.index, mw.w.units); err != nil {
 		mw.status.SetText(err.Error())
 		return
 	}
