@@ -200,7 +200,7 @@ func (w *Window) bindKeys(m *fyne.MainMenu) {
 	// A printable key arrives both as a key and as a character: the
 	// character is what counts, so = and + zoom alike on any keyboard.
 	c.SetOnTypedKey(func(k *fyne.KeyEvent) {
-		if k.Name == fyne.KeyEscape && w.dialogs.dismiss() {
+		if k.Name == fyne.KeyEscape && w.dialogOpen() && w.dialogs.dismiss() {
 			return
 		}
 		if f := plainKeys[k.Name]; f != nil && len(k.Name) > 1 {
