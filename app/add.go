@@ -225,13 +225,13 @@ type addForm struct {
 
 	current addKind
 	fields  []addField
-	entries map[string]*widget.Entry // by field key, kept across kinds
+	entries map[string]*escEntry // by field key, kept across kinds
 	labels  map[string]*widget.Label
 	onAdded func()
 }
 
 func newAddForm(w *Window) *addForm {
-	f := &addForm{w: w, entries: map[string]*widget.Entry{}, labels: map[string]*widget.Label{},
+	f := &addForm{w: w, entries: map[string]*escEntry{}, labels: map[string]*widget.Label{},
 		form: container.New(layout.NewFormLayout()), message: widget.NewLabel(""), hint: widget.NewLabel("")}
 	f.message.Wrapping = fyne.TextWrapWord
 	f.message.Importance = widget.DangerImportance
@@ -299,7 +299,8 @@ func (f *addForm) showFields() {
 	for _, fd := range f.fields {
 		e, ok := f.entries[fd.key]
 		if !ok {
-			e = widget.NewEntry()
+			e = newEscEntry()
+			e.OnEscape = f.w.escape
 			e.SetText(fd.start)
 			e.OnSubmitted = func(string) { f.submit() }
 			f.entries[fd.key] = e
@@ -450,7 +451,7 @@ func (w *Window) showAddForm() {
 	add.Importance = widget.HighImportance
 	d.SetButtons([]fyne.CanvasObject{widget.NewButton("Cancel", d.Hide), add})
 	d.Resize(fyne.NewSize(600, 470))
-	d.Show()
+	w.showDialog(d)
 	if e, ok := f.entries[f.fields[0].key]; ok {
 		w.win.Canvas().Focus(e)
 	}

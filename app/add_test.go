@@ -245,7 +245,7 @@ func TestTypedValuesMoveTheDrawing(t *testing.T) {
 }
 
 // entriesWith is the properties panel's entries with field k set to text.
-func entriesWith(w *Window, k int, text string) []*numberEntry {
+func entriesWith(w *Window, k int, text string) []*escEntry {
 	es := w.ui.panel.entries
 	es[k].SetText(text)
 	return es

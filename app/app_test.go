@@ -226,9 +226,9 @@ func TestBadValueLeavesModel(t *testing.T) {
 	w, _ := newTestWindow(t, demoProject(t))
 	w.selectItem(canvas.Ref{Kind: canvas.Support, Index: 0})
 	before := w.Model()
-	var entries []*numberEntry
+	var entries []*escEntry
 	for _, o := range test.LaidOutObjects(w.ui.properties) {
-		if e, ok := o.(*numberEntry); ok {
+		if e, ok := o.(*escEntry); ok {
 			entries = append(entries, e)
 		}
 	}

@@ -82,7 +82,7 @@ func (w *Window) showSectionCalculator() {
 	result := widget.NewLabel("")
 	result.Wrapping = fyne.TextWrapWord
 	form := container.New(layout.NewFormLayout())
-	var entries []*widget.Entry
+	var entries []*escEntry
 	var shape sectionShape
 	var props section.Properties
 	var propsErr error
@@ -119,7 +119,8 @@ func (w *Window) showSectionCalculator() {
 		}
 		form.Objects, entries = nil, nil
 		for i, label := range shape.dims {
-			e := widget.NewEntry()
+			e := newEscEntry()
+			e.OnEscape = w.escape
 			e.SetText(w.units.Format(units.Dimension, shape.start[i]))
 			e.OnChanged = func(string) { compute() }
 			entries = append(entries, e)
@@ -153,7 +154,7 @@ func (w *Window) showSectionCalculator() {
 		form, widget.NewSeparator(), result, now, fill, note)
 	d := dialog.NewCustom("Section calculator", "Close", content, w.win)
 	d.Resize(fyne.NewSize(560, 480))
-	d.Show()
+	w.showDialog(d)
 }
 
 // showMaterials fills a segment's material from a list of typical ones.
@@ -208,7 +209,7 @@ func (w *Window) showMaterials() {
 		detail, strength, fill)
 	d := dialog.NewCustom("Typical materials", "Close", content, w.win)
 	d.Resize(fyne.NewSize(620, 420))
-	d.Show()
+	w.showDialog(d)
 }
 
 // showCheckLimits edits the project's deflection limit and safety factor.
@@ -232,13 +233,13 @@ func (w *Window) showCheckLimits() {
 // the deflection check, with typical values to pick from, and the safety
 // factor on allowable stress.
 type checkLimitsForm struct {
-	ratio, factor *widget.Entry
+	ratio, factor *escEntry
 	typical       *widget.Select
 	items         []*widget.FormItem
 }
 
 func newCheckLimitsForm(v storage.View) *checkLimitsForm {
-	f := &checkLimitsForm{ratio: widget.NewEntry(), factor: widget.NewEntry()}
+	f := &checkLimitsForm{ratio: newEscEntry(), factor: newEscEntry()}
 	f.ratio.SetText(units.FormatNumber(v.DeflectionLimit))
 	f.factor.SetText(units.FormatNumber(v.SafetyFactor))
 	limits := check.DeflectionLimits()

@@ -58,7 +58,7 @@ func (w *Window) canonical() storage.Project {
 // what to do).
 func (w *Window) validate(m *fem.Model) error {
 	c := lowerCase(*m, w.editCase)
-	err := validate(&c)
+	err := validate(&c, w.units)
 	ve, ok := err.(*fem.ValidationError)
 	if !ok {
 		return err
@@ -263,7 +263,7 @@ func (w *Window) chooseCase(k int) {
 // "loads".
 func (w *Window) addCase() {
 	m := w.canonicalModel()
-	entry := widget.NewEntry()
+	entry := newEscEntry()
 	entry.SetText(fmt.Sprintf("case %d", m.LoadSetCount()+min(len(m.Cases), 1)))
 	w.showForm("Add a load case", "Add", []*widget.FormItem{widget.NewFormItem("Name", entry)}, func(ok bool) {
 		if !ok {
@@ -312,7 +312,7 @@ func (w *Window) renameCase() {
 		return
 	}
 	k := w.editCase
-	entry := widget.NewEntry()
+	entry := newEscEntry()
 	entry.SetText(m.Cases[k].Name)
 	w.showForm("Rename the load case", "Rename", []*widget.FormItem{widget.NewFormItem("Name", entry)}, func(ok bool) {
 		if ok {
@@ -470,7 +470,7 @@ func (w *Window) showCombinations() {
 		w.setStatus("the model has no load cases to combine: Add a case first")
 		return
 	}
-	w.newCombinationsDialog().dialog.Show()
+	w.showDialog(w.newCombinationsDialog().dialog)
 }
 
 // combinationsDialog is the dialog of the combinations' table.
@@ -486,7 +486,7 @@ type combinationsDialog struct {
 // table it cannot keep is refused there, with the reason, and the dialog
 // stays open.
 func (w *Window) newCombinationsDialog() *combinationsDialog {
-	cd := &combinationsDialog{table: newCombinationTable(w.canonicalModel(), w.project.Trains), message: widget.NewLabel("")}
+	cd := &combinationsDialog{table: newCombinationTable(w.canonicalModel(), w.project.Trains, w.escape), message: widget.NewLabel("")}
 	t := cd.table
 	cd.message.Wrapping = fyne.TextWrapWord
 	cd.message.Importance = widget.DangerImportance
@@ -532,20 +532,21 @@ type combinationTable struct {
 	trains []int // the project's trains that have a name, by index
 	grid   *fyne.Container
 	rows   []combinationRow
+	escape func() // what Escape in an entry does
 }
 
 type combinationRow struct {
-	name    *widget.Entry
+	name    *escEntry
 	kind    *widget.Select
 	label   string
-	factors []*widget.Entry // per case
-	trains  []*widget.Entry // per named train (combinationTable.trains)
+	factors []*escEntry // per case
+	trains  []*escEntry // per named train (combinationTable.trains)
 }
 
 var kindNames = []string{fem.Strength.String(), fem.Serviceability.String(), fem.OtherCombination.String()}
 
-func newCombinationTable(m fem.Model, trains []moving.Train) *combinationTable {
-	t := &combinationTable{}
+func newCombinationTable(m fem.Model, trains []moving.Train, escape func()) *combinationTable {
+	t := &combinationTable{escape: escape}
 	for _, c := range m.Cases {
 		t.cases = append(t.cases, c.Name)
 	}
@@ -569,15 +570,22 @@ func newCombinationTable(m fem.Model, trains []moving.Train) *combinationTable {
 	return t
 }
 
+// newEntry is an entry of the table.
+func (t *combinationTable) newEntry() *escEntry {
+	e := newEscEntry()
+	e.OnEscape = t.escape
+	return e
+}
+
 // addRow adds a row showing cb.
 func (t *combinationTable) addRow(cb fem.Combination) {
-	r := combinationRow{name: widget.NewEntry(), kind: widget.NewSelect(kindNames, nil), label: cb.Label}
+	r := combinationRow{name: t.newEntry(), kind: widget.NewSelect(kindNames, nil), label: cb.Label}
 	r.name.SetText(cb.Name)
 	r.kind.SetSelected(cb.Kind.String())
 	t.grid.Add(r.name)
 	t.grid.Add(r.kind)
 	for k := range t.cases {
-		e := widget.NewEntry()
+		e := t.newEntry()
 		for _, f := range cb.Factors {
 			if f.Case == k {
 				e.SetText(strconv.FormatFloat(f.Factor, 'g', -1, 64))
@@ -587,7 +595,7 @@ func (t *combinationTable) addRow(cb fem.Combination) {
 		t.grid.Add(e)
 	}
 	for _, i := range t.trains {
-		e := widget.NewEntry()
+		e := t.newEntry()
 		for _, f := range cb.Trains {
 			if f.Train == i {
 				e.SetText(strconv.FormatFloat(f.Factor, 'g', -1, 64))
@@ -625,7 +633,7 @@ func (t *combinationTable) combinations() ([]fem.Combination, error) {
 		cb := fem.Combination{Name: strings.TrimSpace(r.name.Text), Label: r.label}
 		cb.Kind, _ = fem.ParseCombinationKind(r.kind.Selected)
 		// factor reads one cell: ok false for an empty one.
-		factor := func(e *widget.Entry, column string) (f float64, ok bool, err error) {
+		factor := func(e *escEntry, column string) (f float64, ok bool, err error) {
 			s := strings.TrimSpace(e.Text)
 			if s == "" {
 				return 0, false, nil

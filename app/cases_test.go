@@ -61,7 +61,7 @@ func TestCasesInTheWindow(t *testing.T) {
 		t.Errorf("%d point loads drawn, want the edited case's one", loads)
 	}
 	// Combinations from the table, one cell refused with its place.
-	tab := newCombinationTable(w.Model(), nil)
+	tab := newCombinationTable(w.Model(), nil, nil)
 	tab.addTemplates()
 	tab.rows[0].factors[1].SetText("1,5")
 	if _, err := tab.combinations(); err == nil || !strings.Contains(err.Error(), "row 1, imposed") {
@@ -155,7 +155,7 @@ func TestCombinationTableTrains(t *testing.T) {
 		Combinations: []fem.Combination{{Name: "with hoist", Kind: fem.Strength,
 			Factors: []fem.CaseFactor{{Case: 0, Factor: 1.35}}, Trains: []fem.TrainFactor{{Train: 1, Factor: 1.5}}}}}
 	trains := []moving.Train{{Axles: []moving.Axle{{Load: 1}}}, {Name: "hoist", Axles: []moving.Axle{{Load: 1}}}}
-	tab := newCombinationTable(m, trains)
+	tab := newCombinationTable(m, trains, nil)
 	if len(tab.trains) != 1 || tab.trains[0] != 1 || len(tab.rows[0].trains) != 1 || tab.rows[0].trains[0].Text != "1.5" {
 		t.Fatalf("train columns %v, the row's %v; want the named train's with 1.5", tab.trains, tab.rows[0].trains)
 	}

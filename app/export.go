@@ -7,7 +7,6 @@ import (
 	"strings"
 
 	"fyne.io/fyne/v2"
-	"fyne.io/fyne/v2/dialog"
 
 	"stave/canvas/report"
 	"stave/fem/analysis"
@@ -110,7 +109,7 @@ func (w *Window) exported(path string, err error) {
 	case errors.Is(err, context.Canceled):
 		w.setStatus("export of %s cancelled: no file written", path)
 	case err != nil:
-		dialog.ShowError(err, w.win)
+		w.showError(err)
 	default:
 		w.setStatus("exported %s", path)
 	}

@@ -157,7 +157,7 @@ func (w *Window) fyneFile(save bool, ext string, done func(string)) {
 	}
 	d.SetFilter(storagefilter.NewExtensionFileFilter([]string{"." + ext}))
 	d.Resize(fyne.NewSize(900, 600))
-	d.Show()
+	w.showDialog(d)
 }
 
 // confirmDiscard runs then at once when there are no unsaved changes, and
@@ -189,11 +189,20 @@ type choice struct {
 }
 
 // ask shows a question whose buttons close it and run their choice.
+// The first choice is the cautious one (Cancel, Not now), which Escape
+// makes too.
 func (w *Window) ask(title string, content fyne.CanvasObject, choices ...choice) {
 	d := dialog.NewCustomWithoutButtons(title, content, w.win)
+	chosen := false
+	d.SetOnClosed(func() {
+		if !chosen {
+			choices[0].run()
+		}
+	})
 	buttons := make([]fyne.CanvasObject, len(choices))
 	for i, c := range choices {
 		b := newRingButton(c.label, func() {
+			chosen = true
 			d.Hide()
 			c.run()
 		})
@@ -202,7 +211,7 @@ func (w *Window) ask(title string, content fyne.CanvasObject, choices ...choice)
 	}
 	d.SetButtons(buttons)
 	d.Resize(fyne.NewSize(min(560, d.MinSize().Width+80), d.MinSize().Height))
-	d.Show()
+	w.showDialog(d)
 }
 
 func (w *Window) closeRequested() {
@@ -247,7 +256,7 @@ func (w *Window) openDialog() {
 func (w *Window) openPath(path string) {
 	p, err := storage.Load(path)
 	if err != nil {
-		dialog.ShowError(err, w.win) // it names the file and the place in it
+		w.showError(err) // it names the file and the place in it
 		return
 	}
 	w.replaceProject(p, path)
@@ -287,7 +296,7 @@ func (w *Window) saveAs(then func()) {
 func (w *Window) writeProject(path string, then func()) {
 	p := w.canonical()
 	if err := storage.Save(path, &p); err != nil {
-		dialog.ShowError(fmt.Errorf("the member was not saved: %w", err), w.win)
+		w.showError(fmt.Errorf("the member was not saved: %w", err))
 		return
 	}
 	w.path = path
@@ -324,14 +333,14 @@ func (w *Window) warnUnloadable(path string, err error, then func()) {
 	const title = "Saved, but it will not open as it is"
 	msg := "The member was saved, so no work is lost, but " + err.Error() + "\n" + fix
 	if then == nil {
-		dialog.ShowInformation(title, msg, w.win)
+		w.showDialog(dialog.NewInformation(title, msg, w.win))
 		return
 	}
-	dialog.ShowCustomConfirm(title, "Go on anyway", "Stay and fix it", widget.NewLabel(msg), func(goOn bool) {
+	w.showDialog(dialog.NewCustomConfirm(title, "Go on anyway", "Stay and fix it", widget.NewLabel(msg), func(goOn bool) {
 		if goOn {
 			then()
 		}
-	}, w.win)
+	}, w.win))
 }
 
 // addRecent puts path at the top of the recent files.
@@ -456,7 +465,7 @@ func (w *Window) offerRecovery() {
 		choice{"Save as…", widget.MediumImportance, func() {
 			w.chooseFile(true, "Save the restored member as", "Stave member", "json", func(path string) {
 				if err := storage.Save(path, r.Project); err != nil {
-					dialog.ShowError(fmt.Errorf("the restored member was not saved: %w", err), w.win)
+					w.showError(fmt.Errorf("the restored member was not saved: %w", err))
 					return
 				}
 				restore(path, true)

@@ -11,6 +11,7 @@ import (
 	"strings"
 	"testing"
 
+	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/test"
 
 	"stave/canvas"
@@ -276,7 +277,7 @@ func TestRecoveryOffersOnlyKeptWork(t *testing.T) {
 
 // The recovery question: Not now keeps the copy for the next start (and
 // the window does not autosave over it), Discard deletes it, Restore
-// shows the work as unsaved changes.
+// shows the work as unsaved changes. Escape answers as Not now does.
 func TestRecoveryQuestion(t *testing.T) {
 	kept := demoProject(t)
 	kept.Model.PointLoads[0].X = 1.25
@@ -286,6 +287,7 @@ func TestRecoveryQuestion(t *testing.T) {
 		wantX    float64 // the load's x in the window afterwards
 	}{
 		{"Not now", true, 4.2},
+		{"Escape", true, 4.2},
 		{"Discard", false, 4.2},
 		{"Restore", true, 1.25},
 	} {
@@ -297,7 +299,11 @@ func TestRecoveryQuestion(t *testing.T) {
 		w.offerRecovery()
 		_, _, buttons, _ := dialogWidgets(t, w)
 		buttonNamed(t, buttons, "Save as…")
-		test.Tap(buttonNamed(t, buttons, c.answer))
+		if c.answer == "Escape" {
+			typeKey(w, fyne.KeyEscape)
+		} else {
+			test.Tap(buttonNamed(t, buttons, c.answer))
+		}
 		if got := w.Model().PointLoads[0].X; got != c.wantX {
 			t.Errorf("%s: the load is at %g m, want %g m", c.answer, got, c.wantX)
 		}
@@ -312,7 +318,7 @@ func TestRecoveryQuestion(t *testing.T) {
 		r, _ := storage.FindRecovery(dir)
 		if r == nil {
 			t.Errorf("%s: unsaved work after the answer is not autosaved", c.answer)
-		} else if want := map[bool]float64{true: 1.25, false: 2}[c.answer == "Not now"]; r.Project.Model.PointLoads[0].X != want {
+		} else if want := map[bool]float64{true: 1.25, false: 2}[c.answer == "Not now" || c.answer == "Escape"]; r.Project.Model.PointLoads[0].X != want {
 			t.Errorf("%s: the autosave has the load at %g m, want %g m", c.answer, r.Project.Model.PointLoads[0].X, want)
 		}
 	}

@@ -66,19 +66,20 @@ func (w *Window) guarded(f func()) func() {
 // showForm shows a dialog of a few fields, as dialog.NewForm makes it,
 // with the focus in its first field; Enter in any field confirms it, as
 // the confirm button does (done then gets true), as Enter does in the Add
-// form and the properties.
+// form and the properties, and Escape cancels it.
 func (w *Window) showForm(title, confirm string, items []*widget.FormItem, done func(bool)) *dialog.FormDialog {
 	d := dialog.NewForm(title, confirm, "Cancel", items, done, w.win)
-	var first *widget.Entry
+	var first *escEntry
 	for _, it := range items {
-		if e, ok := it.Widget.(*widget.Entry); ok {
+		if e, ok := it.Widget.(*escEntry); ok {
 			e.OnSubmitted = func(string) { d.Submit() }
+			e.OnEscape = w.escape
 			if first == nil {
 				first = e
 			}
 		}
 	}
-	d.Show()
+	w.showDialog(d)
 	if first != nil {
 		w.win.Canvas().Focus(first)
 	}
@@ -167,7 +168,7 @@ func (w *Window) setMainMenu() {
 // the canvas takes them where there is no menu bar. Ctrl+Shift+Z redoes as
 // well as Ctrl+Y. Plain keys (tool letters, Delete, Escape) act when
 // nothing or the drawing has the focus (Tab reaches the drawing); a widget
-// in focus has them otherwise.
+// in focus has them otherwise. Escape closes the dialog on top, if any.
 func (w *Window) bindKeys(m *fyne.MainMenu) {
 	c := w.win.Canvas()
 	plainKeys := map[fyne.KeyName]func(){}
@@ -199,6 +200,9 @@ func (w *Window) bindKeys(m *fyne.MainMenu) {
 	// A printable key arrives both as a key and as a character: the
 	// character is what counts, so = and + zoom alike on any keyboard.
 	c.SetOnTypedKey(func(k *fyne.KeyEvent) {
+		if k.Name == fyne.KeyEscape && w.dialogOpen() && w.dialogs.dismiss() {
+			return
+		}
 		if f := plainKeys[k.Name]; f != nil && len(k.Name) > 1 {
 			f()
 		}

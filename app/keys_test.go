@@ -12,7 +12,6 @@ import (
 	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/driver/desktop"
 	"fyne.io/fyne/v2/test"
-	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
 	"stave/fem"
@@ -154,7 +153,8 @@ func (s state) String() string {
 		len(m.Supports), len(m.PointLoads), len(m.DistributedLoad), s.selected, s.tool, s.undo)
 }
 
-// No key reaches the model, the selection or the tool while a dialog is open.
+// No key reaches the model, the selection or the tool while a dialog is open
+// (Escape closes the dialog: TestEscapeClosesDialogs).
 func TestKeysDoNothingBehindDialogs(t *testing.T) {
 	dialogs := []struct {
 		name string
@@ -175,7 +175,6 @@ func TestKeysDoNothingBehindDialogs(t *testing.T) {
 	}{
 		{"Delete", func(_ *testing.T, w *Window) { typeKey(w, fyne.KeyDelete) }},
 		{"Backspace", func(_ *testing.T, w *Window) { typeKey(w, fyne.KeyBackspace) }},
-		{"Escape", func(_ *testing.T, w *Window) { typeKey(w, fyne.KeyEscape) }},
 		{"R", func(_ *testing.T, w *Window) { typeRune(w, 'r') }},
 		{"A", func(_ *testing.T, w *Window) { typeRune(w, 'a') }},
 		{"Ctrl+Z", func(t *testing.T, w *Window) { press(t, w, pressCtrlZ) }},
@@ -211,24 +210,6 @@ func TestKeysDoNothingBehindDialogs(t *testing.T) {
 	typeKey(w, fyne.KeyDelete)
 	if len(w.Model().PointLoads) != len(demoProject(t).Model.PointLoads)-1 {
 		t.Error("Delete with no dialog open did not delete the selected load")
-	}
-}
-
-// Escape on the unsaved-changes question changes nothing; Cancel goes back
-// to the work with nothing lost.
-func TestEscapeOnUnsavedChanges(t *testing.T) {
-	w, _ := newTestWindow(t, demoProject(t))
-	w.apply("move the load", func(m *fem.Model) error { m.PointLoads[0].X += 0.5; return nil })
-	w.selectItem(canvas.Ref{Kind: canvas.Support, Index: 0})
-	w.newProject()
-	typeKey(w, fyne.KeyEscape)
-	if w.selected.Kind != canvas.Support {
-		t.Errorf("Escape on the unsaved-changes dialog changed the selection to %v", w.selected)
-	}
-	_, _, buttons, _ := dialogWidgets(t, w)
-	test.Tap(buttonNamed(t, buttons, "Cancel"))
-	if open := w.win.Canvas().Overlays().Top() != nil; open || !w.dirty() || w.selected.Kind != canvas.Support {
-		t.Errorf("Cancel: dialog open %v, unsaved changes %v, selection %v", open, w.dirty(), w.selected)
 	}
 }
 
@@ -391,7 +372,7 @@ func TestSelectAndEditByKeyboard(t *testing.T) {
 		typeKey(w, fyne.KeyRight)
 	}
 	typeKey(w, fyne.KeyReturn)
-	e, ok := w.win.Canvas().Focused().(*numberEntry)
+	e, ok := w.win.Canvas().Focused().(*escEntry)
 	if !ok || e != w.ui.panel.entries[0] {
 		t.Fatalf("Enter put the focus on %T, want the support's x", w.win.Canvas().Focused())
 	}
@@ -475,7 +456,7 @@ func TestFormDialogsByKeyboard(t *testing.T) {
 		if c.Overlays().Top() == nil {
 			t.Fatalf("%s: no dialog showing", d.name)
 		}
-		e, ok := c.Focused().(*widget.Entry)
+		e, ok := c.Focused().(*escEntry)
 		if !ok {
 			t.Errorf("%s: the dialog opens with the focus on %T, want its first field", d.name, c.Focused())
 			continue

@@ -63,6 +63,8 @@ func nameOf(o fyne.CanvasObject) string {
 		return "choice " + quoteOr(v.Selected, "")
 	case *widget.Entry:
 		return "field " + quoteOr(v.Text, "")
+	case *escEntry:
+		return "field " + quoteOr(v.Text, "")
 	}
 	return "a " + fyneTypeName(o)
 }
@@ -269,5 +271,24 @@ func TestWindowFitsASmallLaptop(t *testing.T) {
 			t.Errorf("%s: the window needs %.0f × %.0f px, the screen has %.0f × %.0f under the menu bar",
 				name, need.Width, need.Height, smallLaptop.Width, smallLaptop.Height)
 		}
+	}
+}
+
+// The moving-loads window gives its picture most of a screen of 1024 ×
+// 640: the train form, widened by its axles' heading and its switch, took
+// 456 of the 1024 px, so the picture had 552, and the controls above it
+// wrapped into four rows. (That the controls stay above the picture as
+// the window shrinks is seen on the screen only: the test driver does not
+// lay a window out again when a minimum size changes.)
+func TestMovingWindowPictureOnASmallScreen(t *testing.T) {
+	w, q := openTestdata(t, filepath.Join("moving", "runway.json"), smallLaptop)
+	finished(t, w, q)
+	w.showMovingLoads()
+	mw := w.moving
+	small := fyne.NewSize(1024, 640)
+	mw.win.Resize(small)
+	if got := mw.pic.Size().Width; got < 0.65*small.Width {
+		t.Errorf("the picture is %.0f px wide in a window %.0f wide, want at least two thirds (the form needs %.0f)",
+			got, small.Width, mw.formScroll.Content.MinSize().Width)
 	}
 }

@@ -154,7 +154,7 @@ func TestAddFoundationCarriesPartOfTheLoad(t *testing.T) {
 
 // fieldEntry is the properties panel's entry for the field whose label
 // starts with label.
-func fieldEntry(t *testing.T, w *Window, label string) *numberEntry {
+func fieldEntry(t *testing.T, w *Window, label string) *escEntry {
 	t.Helper()
 	for k, f := range w.ui.panel.fields {
 		if strings.HasPrefix(f.label, label) {

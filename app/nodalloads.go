@@ -220,5 +220,5 @@ func (w *Window) showNodalTable() {
 	note.Wrapping = fyne.TextWrapWord
 	d := dialog.NewCustom("Nodal loads of the line loads and self-weight", "Close", container.NewBorder(note, nil, nil, nil, t), w.win)
 	d.Resize(fyne.NewSize(960, 520))
-	d.Show()
+	w.showDialog(d)
 }

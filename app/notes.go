@@ -48,7 +48,7 @@ var notesFields = []notesField{
 
 // notesForm is the content of the notes dialog.
 type notesForm struct {
-	entries []*widget.Entry
+	entries []*escEntry
 	labels  []*widget.Label
 	message *widget.Label
 	content fyne.CanvasObject
@@ -60,11 +60,11 @@ func newNotesForm(n storage.Notes) *notesForm {
 	f.message.Importance = widget.DangerImportance
 	form := container.New(layout.NewFormLayout())
 	for _, nf := range notesFields {
-		e := widget.NewEntry()
+		e := newEscEntry()
 		if nf.path == "notes.text" {
 			// Lines as typed: wrapping a long text in an entry takes the
 			// toolkit seconds per few thousand characters.
-			e = widget.NewMultiLineEntry()
+			e.MultiLine = true
 			e.Wrapping = fyne.TextWrapOff
 			e.SetMinRowsVisible(5)
 		}
@@ -122,6 +122,9 @@ func (w *Window) showNotesForm() {
 	d = dialog.NewCustomWithoutButtons("Notes for the calculation sheet", f.content, w.win)
 	d.SetButtons([]fyne.CanvasObject{widget.NewButton("Cancel", func() { d.Hide() }), save})
 	d.Resize(fyne.NewSize(620, 460))
-	d.Show()
+	for _, e := range f.entries {
+		e.OnEscape = w.escape
+	}
+	w.showDialog(d)
 	w.win.Canvas().Focus(f.entries[0])
 }

@@ -122,7 +122,7 @@ func fieldsFor(m *fem.Model, r canvas.Ref) []field {
 type propertiesPanel struct {
 	key     string // what the panel was built for; a new key rebuilds it
 	fields  []field
-	entries []*numberEntry
+	entries []*escEntry
 	shown   []string // the text each entry was last given
 }
 
@@ -178,7 +178,7 @@ func (c *controls) showProperties() {
 	message := widget.NewLabel("")
 	message.Wrapping = fyne.TextWrapWord
 	message.Importance = widget.DangerImportance
-	entries := make([]*numberEntry, len(fields))
+	entries := make([]*escEntry, len(fields))
 	shown := make([]string, len(fields))
 	p.fields, p.entries, p.shown = fields, entries, shown
 	form := container.New(layout.NewFormLayout())
@@ -192,7 +192,8 @@ func (c *controls) showProperties() {
 		c.showProperties()
 	}
 	for k, f := range fields {
-		e := newNumberEntry(func() { w.win.Canvas().Focus(w.draw) })
+		e := newEscEntry()
+		e.OnEscape = w.escape
 		shown[k] = w.formatField(f.q, f.get(m))
 		e.SetText(shown[k])
 		e.OnSubmitted = func(string) { applyAll() }
@@ -230,29 +231,6 @@ func (c *controls) showProperties() {
 	c.properties.Objects = []fyne.CanvasObject{container.NewBorder(heading("Properties — "+title), foot, nil, nil,
 		container.NewVScroll(container.NewVBox(objects...)))}
 	c.properties.Refresh()
-}
-
-// numberEntry is an entry of the properties panel. Escape gives the focus
-// back to the drawing, where the keys of the menus act, leaving what was
-// typed and not applied in the entry.
-type numberEntry struct {
-	widget.Entry
-	escape func()
-}
-
-func newNumberEntry(escape func()) *numberEntry {
-	e := &numberEntry{escape: escape}
-	e.ExtendBaseWidget(e)
-	return e
-}
-
-// TypedKey is part of fyne.Focusable.
-func (e *numberEntry) TypedKey(k *fyne.KeyEvent) {
-	if k.Name == fyne.KeyEscape {
-		e.escape()
-		return
-	}
-	e.Entry.TypedKey(k)
 }
 
 // ratio is the kind of a field that has no unit (κ, ν): a plain number.
@@ -402,7 +380,7 @@ func (c *controls) toggle(label string, on bool, what string, at func(m *fem.Mod
 // edit; a value that does not parse, or a model that does not validate,
 // changes nothing. Untouched entries are skipped because they show values
 // rounded to four figures.
-func (w *Window) applyFields(title string, r canvas.Ref, fields []field, entries []*numberEntry, shown []string) error {
+func (w *Window) applyFields(title string, r canvas.Ref, fields []field, entries []*escEntry, shown []string) error {
 	values := make([]float64, len(fields))
 	changed := make([]bool, len(fields))
 	anyChanged := false

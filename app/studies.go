@@ -84,7 +84,7 @@ func (w *Window) runConvergence() {
 		t, err := study.Convergence(ctx, &m, convergencePerStretch)
 		return func() {
 			if err != nil {
-				dialog.ShowError(err, w.win)
+				w.showError(err)
 				w.setStatus("convergence study: %v", err)
 				return
 			}
@@ -146,14 +146,14 @@ func (w *Window) showConvergence() {
 		nil, nil, right, left)
 	d := dialog.NewCustom("Convergence study", "Close", content, w.win)
 	d.Resize(fyne.NewSize(1160, 520))
-	d.Show()
+	w.showDialog(d)
 }
 
 // runAdaptive asks for a target error, refines the mesh where the estimated
 // error is largest, compares with uniform refinement, and then solves on the
 // refined mesh until the model changes.
 func (w *Window) runAdaptive() {
-	target := widget.NewEntry()
+	target := newEscEntry()
 	target.SetText("1 %")
 	form := w.showForm("Adaptive refinement", "Refine",
 		[]*widget.FormItem{widget.NewFormItem("Target error (energy norm)", target)},
@@ -197,7 +197,7 @@ func parseFraction(text string) (float64, error) {
 // the drawing, if the model is still the one refined.
 func (w *Window) adaptiveDone(m fem.Model, target float64, v study.Versus, err error) {
 	if err != nil && len(v.Adaptive.Iterations) == 0 {
-		dialog.ShowError(err, w.win)
+		w.showError(err)
 		w.setStatus("adaptive refinement: %v", err)
 		return
 	}
@@ -219,7 +219,7 @@ func (w *Window) adaptiveDone(m fem.Model, target float64, v study.Versus, err e
 	// As wide as the table's widest line, as far as the window allows:
 	// at 760 px the comparison with uniform refinement ran out of sight.
 	d.Resize(fyne.NewSize(min(grid.MinSize().Width+dialogPadWidth+theme.InnerPadding(), w.win.Canvas().Size().Width), 480))
-	d.Show()
+	w.showDialog(d)
 }
 
 // dialogPadWidth is the width, px, a dialog takes beside its content, to

@@ -89,6 +89,8 @@ func dialogWidgets(t *testing.T, w *Window) (selects []*widget.Select, entries [
 			selects = append(selects, v)
 		case *widget.Entry:
 			entries = append(entries, v)
+		case *escEntry:
+			entries = append(entries, &v.Entry)
 		case *widget.Button:
 			buttons = append(buttons, v)
 		case *ringButton:

@@ -142,7 +142,7 @@ func (mw *movingWindow) build() {
 	})
 	mw.name = widget.NewEntry()
 	mw.direction = widget.NewSelect([]string{"both", "forward", "backward"}, nil)
-	mw.offEnds = widget.NewCheck("Drives on and off at the member's ends", nil)
+	mw.offEnds = widget.NewCheck("Drives on and off at the ends", nil)
 	mw.from, mw.to, mw.step = widget.NewEntry(), widget.NewEntry(), widget.NewEntry()
 	mw.to.SetPlaceHolder("the member's end")
 	mw.step.SetPlaceHolder("from the mesh")
@@ -159,10 +159,12 @@ func (mw *movingWindow) build() {
 		widget.NewLabel("Moves"), mw.direction,
 		mw.unitLabel("From x", units.Position), mw.from,
 		mw.unitLabel("To x", units.Position), mw.to,
-		widget.NewLabel(""), mw.offEnds,
 		mw.unitLabel("Step", units.Position), mw.step,
 	)
+	// The heading wraps and the switch has a row of its own, so that
+	// neither widens the form beyond its share of a small screen.
 	mw.axlesHeading = heading("")
+	mw.axlesHeading.Wrapping = fyne.TextWrapWord
 	uniform := container.New(layout.NewFormLayout(),
 		mw.unitLabel("Load", units.LineLoad), mw.uniform[0],
 		mw.unitLabel("Behind the front", units.Position), mw.uniform[1],
@@ -174,6 +176,7 @@ func (mw *movingWindow) build() {
 		container.NewBorder(nil, nil, nil, container.NewHBox(
 			widget.NewButton("New", mw.newTrain), widget.NewButton("Delete", mw.deleteTrain)), mw.trainSelect),
 		form,
+		mw.offEnds,
 		mw.axlesHeading,
 		mw.axles,
 		widget.NewButton("Add an axle", func() { mw.addAxleRow(moving.Axle{}); mw.rowsChanged() }),
@@ -220,7 +223,13 @@ func (mw *movingWindow) build() {
 		container.NewHBox(widget.NewLabel("at x"), wide(mw.point, 150)), widget.NewButton("Worst position", mw.toWorst))
 	hint := widget.NewLabel("Drag the train, or ← → on the picture (Tab to it); a click pins the influence line, another frees it.")
 	hint.Wrapping = fyne.TextWrapWord
-	center := container.NewBorder(top, container.NewVBox(mw.readout, hint), nil, nil, mw.pic)
+	// The controls come last: the canvas lays a container out again for
+	// one child whose minimum size changed per pass, the last it meets,
+	// and when the window shrinks both the controls (into more rows) and
+	// the readout below change; with the controls first the picture kept
+	// its place under two rows while they took three, and lay under them.
+	below := container.NewVBox(mw.readout, hint)
+	center := container.New(layout.NewBorderLayout(top, below, nil, nil), mw.pic, below, top)
 	mw.formScroll = container.NewVScroll(left)
 	split := container.NewHSplit(mw.formScroll, center)
 	split.SetOffset(0.27)
@@ -512,7 +521,7 @@ func (mw *movingWindow) apply() {
 	}
 	t, err := mw.readTrain()
 	if err == nil {
-		err = t.Check(mw.w.project.Model.Length(), mw.index)
+		err = t.Check(mw.w.project.Model.Length(), mw.index, mw.w.units)
 	}
 	if err != nil {
 		mw.status.SetText("not applied: " + err.Error())
@@ -584,7 +593,7 @@ func (mw *movingWindow) modelChanged() {
 		return
 	}
 	t := mw.w.project.Trains[mw.index]
-	if err := t.Check(p.Model.Length(), mw.index); err != nil {
+	if err := t.Check(p.Model.Length(), mw.index, mw.w.units); err != nil {
 		mw.status.SetText(err.Error())
 		return
 	}

@@ -92,6 +92,8 @@ type Window struct {
 	earlierKept bool
 	// moving is the moving-loads window (train.go) while it is open.
 	moving *movingWindow
+	// dialogs are the dialogs open on the window, for Escape (escape.go).
+	dialogs dialogStack
 }
 
 // options are the parts of a window that tests replace.
@@ -182,12 +184,13 @@ func (w *Window) setStatus(format string, args ...any) {
 	w.note = ""
 }
 
-// validate accepts an empty sketch and otherwise asks fem.
-func validate(m *fem.Model) error {
+// validate accepts an empty sketch and otherwise asks fem, whose messages
+// quote values in u, the units the window shows.
+func validate(m *fem.Model, u units.System) error {
 	if len(m.Segments) == 0 {
 		return nil
 	}
-	return m.Validate()
+	return m.ValidateIn(u)
 }
 
 // apply runs change on a copy of the model and, when the result is a valid

@@ -7,6 +7,8 @@ import (
 	"slices"
 	"strconv"
 	"strings"
+
+	"stave/fem/units"
 )
 
 // Problem is one thing wrong with a model: where it lies, and a sentence for
@@ -107,9 +109,15 @@ var (
 	meshItem  = Item{Kind: MeshItem, Index: -1}
 )
 
-// Validate checks the model and returns nil or a *ValidationError listing all problems.
-func (m *Model) Validate() error {
-	v := validator{}
+// Validate checks the model and returns nil or a *ValidationError listing
+// all problems, their values in SI base units (m, N, Pa...), as a file
+// holds them.
+func (m *Model) Validate() error { return m.ValidateIn(units.Base) }
+
+// ValidateIn is Validate with the messages quoting values in the display
+// units of u, those a window shows and its user types.
+func (m *Model) ValidateIn(u units.System) error {
+	v := validator{u: u}
 	if m == nil {
 		v.add(Place{Item: modelItem}, "there is no model")
 		return v.err()
@@ -131,11 +139,11 @@ func (m *Model) Validate() error {
 	v.distributedLoads(m.DistributedLoad, lengthKnown)
 	for i, g := range m.Gravity {
 		if !isFinite(g) {
-			v.add(Place{Item: modelItem, Property: GravityProperty, Dof: Dof(i)}, fmt.Sprintf("the gravity component %d is %v: enter a finite value in m/s²", i+1, g))
+			v.add(Place{Item: modelItem, Property: GravityProperty, Dof: Dof(i)}, fmt.Sprintf("the gravity component %d is %v: enter a finite value in %s", i+1, g, v.unit(units.Acceleration)))
 		}
 	}
 	if !isFinite(m.TemperatureChange) {
-		v.add(Place{Item: modelItem, Property: TemperatureChangeProperty}, fmt.Sprintf("the temperature change is %v: enter a finite value in K", m.TemperatureChange))
+		v.add(Place{Item: modelItem, Property: TemperatureChangeProperty}, fmt.Sprintf("the temperature change is %v: enter a finite value in %s", m.TemperatureChange, v.unit(units.TemperatureChange)))
 	}
 	v.cases(m, lengthKnown)
 	if m.AxialOnly {
@@ -157,7 +165,7 @@ func (v *validator) axialOnly(m *Model) {
 	if m.Gravity[1] != 0 {
 		for _, s := range m.Segments {
 			if s.Material.Density > 0 {
-				v.add(Place{Item: modelItem, Property: GravityProperty, Dof: Transverse}, fmt.Sprintf("self-weight acts across the member (gravity %s m/s² across it), but %s: turn the member along gravity, or let it bend", fmtNumber(m.Gravity[1]), axialOnlyWhy))
+				v.add(Place{Item: modelItem, Property: GravityProperty, Dof: Transverse}, fmt.Sprintf("self-weight acts across the member (gravity %s across it), but %s: turn the member along gravity, or let it bend", v.num(units.Acceleration, m.Gravity[1]), axialOnlyWhy))
 				break
 			}
 		}
@@ -197,6 +205,7 @@ func (v *validator) axialOnlyLoads(points []PointLoad, lines []DistributedLoad) 
 }
 
 type validator struct {
+	u           units.System // the units the messages quote values in
 	problems    []Problem
 	L, tol      float64
 	modelHinges []Hinge // for the point loads: a moment at a hinge is refused
@@ -258,7 +267,7 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 			}
 		}
 		if !isFinite(lc.TemperatureChange) {
-			v.add(Place{Item: it, Property: TemperatureChangeProperty}, fmt.Sprintf("load case %q: the temperature change is %v: enter a finite value in K", lc.Name, lc.TemperatureChange))
+			v.add(Place{Item: it, Property: TemperatureChangeProperty}, fmt.Sprintf("load case %q: the temperature change is %v: enter a finite value in %s", lc.Name, lc.TemperatureChange, v.unit(units.TemperatureChange)))
 		}
 		v.loadCase, v.prefix = c+1, fmt.Sprintf("load case %q: ", lc.Name)
 		v.pointLoads(lc.PointLoads, lengthKnown)
@@ -331,18 +340,54 @@ func (v *validator) err() error {
 // label names an item as users count it, e.g. "support 3".
 func label(it Item) string { return fmt.Sprintf("%s %d", it.Kind, it.Index+1) }
 
-// property reports a property that must be finite and > 0 (or >= 0 when zero is allowed).
-func (v *validator) property(at Place, name string, value float64, unit string, zeroAllowed bool) {
+// property reports a property of kind k that must be finite and > 0 (or
+// >= 0 when zero is allowed).
+func (v *validator) property(at Place, name string, value float64, k units.Kind, zeroAllowed bool) {
 	switch {
 	case !isFinite(value):
-		v.add(at, fmt.Sprintf("%s: %s is %v: enter a finite value in %s", label(at.Item), name, value, unit))
+		v.add(at, fmt.Sprintf("%s: %s is %v: enter a finite %s", label(at.Item), name, value, v.valueIn(k)))
 	case value < 0 || (value == 0 && !zeroAllowed):
 		want := "positive"
 		if zeroAllowed {
 			want = "zero or positive"
 		}
-		v.add(at, fmt.Sprintf("%s: %s is %s %s: it must be %s", label(at.Item), name, fmtNumber(value), unit, want))
+		v.add(at, fmt.Sprintf("%s: %s is %s: it must be %s", label(at.Item), name, v.num(k, value), want))
 	}
+}
+
+// plain is the kind of a number with no unit (a coefficient).
+const plain units.Kind = -1
+
+// unit is the symbol of the unit the messages quote values of kind k in.
+func (v *validator) unit(k units.Kind) string { return v.u.Unit(k).Symbol }
+
+// valueIn asks for a value of kind k: "value in m", or "number" for plain.
+func (v *validator) valueIn(k units.Kind) string {
+	if k == plain {
+		return "number"
+	}
+	return "value in " + v.unit(k)
+}
+
+// num prints x, an SI value of kind k, in the messages' units: "3.2 m".
+func (v *validator) num(k units.Kind, x float64) string {
+	if k == plain {
+		return fmtNumber(x)
+	}
+	return fmtNumber(v.u.ToDisplay(k, x)) + " " + v.unit(k)
+}
+
+// span is the range from a to b, SI values of kind k: "1e-150 to 1e+150 N/m".
+func (v *validator) span(k units.Kind, a, b float64) string {
+	da, db := fmtPair(v.u.ToDisplay(k, a), v.u.ToDisplay(k, b))
+	return da + " to " + db + " " + v.unit(k)
+}
+
+// pair is num for two SI values of kind k, with the fewest digits that
+// tell them apart (fmtPair).
+func (v *validator) pair(k units.Kind, a, b float64) (string, string) {
+	da, db := fmtPair(v.u.ToDisplay(k, a), v.u.ToDisplay(k, b))
+	return da + " " + v.unit(k), db + " " + v.unit(k)
 }
 
 func (v *validator) segments(segs []Segment) {
@@ -355,45 +400,45 @@ func (v *validator) segments(segs []Segment) {
 			x        float64
 		}{{StartProperty, "start", s.Start}, {EndProperty, "end", s.End}} {
 			if !isFinite(e.x) {
-				v.add(Place{Item: it, Property: e.property}, fmt.Sprintf("segment %d: its %s is %v: enter a finite position in m", i+1, e.name, e.x))
+				v.add(Place{Item: it, Property: e.property}, fmt.Sprintf("segment %d: its %s is %v: enter a finite position in %s", i+1, e.name, e.x, v.unit(units.Position)))
 				badEnds = true
 			}
 		}
 		if !badEnds {
 			if s.End <= s.Start {
-				start, end := fmtPair(s.Start, s.End)
-				v.add(Place{Item: it, Property: EndProperty}, fmt.Sprintf("segment %d runs from x = %s m to x = %s m: its end must lie beyond its start", i+1, start, end))
+				start, end := v.pair(units.Position, s.Start, s.End)
+				v.add(Place{Item: it, Property: EndProperty}, fmt.Sprintf("segment %d runs from x = %s to x = %s: its end must lie beyond its start", i+1, start, end))
 			}
 			prev := 0.0
 			if i > 0 {
 				prev = segs[i-1].End
 			}
 			start := Place{Item: it, Property: StartProperty}
-			before, here := fmtPair(prev, s.Start)
+			before, here := v.pair(units.Position, prev, s.Start)
 			switch d := s.Start - prev; {
 			case i == 0 && math.Abs(d) > v.tol:
-				v.add(start, fmt.Sprintf("segment 1 starts at x = %s: the member must start at x = 0", fmtMetres(s.Start)))
+				v.add(start, fmt.Sprintf("segment 1 starts at x = %s: the member must start at x = 0", v.num(units.Position, s.Start)))
 			case i > 0 && d > v.tol:
-				v.add(start, fmt.Sprintf("there is a gap between segment %d (ends at x = %s m) and segment %d (starts at x = %s m): make them meet", i, before, i+1, here))
+				v.add(start, fmt.Sprintf("there is a gap between segment %d (ends at x = %s) and segment %d (starts at x = %s): make them meet", i, before, i+1, here))
 			case i > 0 && d < -v.tol:
-				v.add(start, fmt.Sprintf("segment %d (starts at x = %s m) overlaps segment %d (ends at x = %s m): make them meet", i+1, here, i, before))
+				v.add(start, fmt.Sprintf("segment %d (starts at x = %s) overlaps segment %d (ends at x = %s): make them meet", i+1, here, i, before))
 			}
 		}
 		at := func(p Property) Place { return Place{Item: it, Property: p} }
-		v.property(at(AreaProperty), "the area A", s.Section.Area, "m²", false)
-		v.property(at(SecondMomentProperty), "the second moment of area I", s.Section.SecondMoment, "m⁴", false)
-		v.property(at(FibreDistanceProperty), "the extreme fibre distance c", s.Section.FibreDistance, "m", false)
-		v.property(at(ElasticProperty), "Young's modulus E", s.Material.Elastic, "Pa", false)
-		v.property(at(DensityProperty), "the density", s.Material.Density, "kg/m³", true)
-		v.property(at(AllowableProperty), "the allowable stress", s.Material.Allowable, "Pa", true)
+		v.property(at(AreaProperty), "the area A", s.Section.Area, units.Area, false)
+		v.property(at(SecondMomentProperty), "the second moment of area I", s.Section.SecondMoment, units.SecondMoment, false)
+		v.property(at(FibreDistanceProperty), "the extreme fibre distance c", s.Section.FibreDistance, units.Dimension, false)
+		v.property(at(ElasticProperty), "Young's modulus E", s.Material.Elastic, units.Modulus, false)
+		v.property(at(DensityProperty), "the density", s.Material.Density, units.Density, true)
+		v.property(at(AllowableProperty), "the allowable stress", s.Material.Allowable, units.Stress, true)
 		if a := s.Material.ThermalExpansion; !isFinite(a) {
-			v.add(at(ThermalExpansionProperty), fmt.Sprintf("segment %d: the thermal expansion coefficient is %v: enter a finite value in 1/K", i+1, a))
+			v.add(at(ThermalExpansionProperty), fmt.Sprintf("segment %d: the thermal expansion coefficient is %v: enter a finite value in %s", i+1, a, v.unit(units.ThermalExpansion)))
 		}
-		v.property(at(DepthProperty), "the depth", s.Section.Depth, "m", true)
+		v.property(at(DepthProperty), "the depth", s.Section.Depth, units.Dimension, true)
 		v.shearDeformation(i, s)
 		switch dt := s.TemperatureDifference; {
 		case !isFinite(dt):
-			v.add(at(TemperatureDifferenceProperty), fmt.Sprintf("segment %d: the temperature difference through the depth is %v: enter a finite value in K", i+1, dt))
+			v.add(at(TemperatureDifferenceProperty), fmt.Sprintf("segment %d: the temperature difference through the depth is %v: enter a finite value in %s", i+1, dt, v.unit(units.TemperatureChange)))
 		case dt != 0 && !(s.Section.depth() > 0):
 			v.add(at(DepthProperty), fmt.Sprintf("segment %d has a temperature difference through its depth but no depth to spread it over: enter the section's depth (or its extreme fibre distance, for a symmetric section)", i+1))
 		}
@@ -414,12 +459,15 @@ func (v *validator) segmentStiffness(it Item, s Segment) {
 		name, symbol, factor string
 		log10                float64
 	}{
-		{"axial stiffness", "EA/ℓ", "A = " + fmtNumber(A) + " m²", log10(E) + log10(A) - log10(l)},
-		{"bending stiffness", "EI/ℓ³", "I = " + fmtNumber(I) + " m⁴", log10(E) + log10(I) - 3*log10(l)},
+		{"axial stiffness", "EA/ℓ", "A = " + v.num(units.Area, A), log10(E) + log10(A) - log10(l)},
+		{"bending stiffness", "EI/ℓ³", "I = " + v.num(units.SecondMoment, I), log10(E) + log10(I) - 3*log10(l)},
 	} {
 		if k.log10 < log10(minStiffness) || k.log10 > log10(maxStiffness) {
-			v.add(Place{Item: it}, fmt.Sprintf("%s: its %s %s is about %s N/m (E = %s Pa, %s, ℓ = %s), outside the range the solvers work in (%s to %s N/m): check these values and their units",
-				label(it), k.name, k.symbol, fmtPowerOfTen(k.log10), fmtNumber(E), k.factor, fmtMetres(l), fmtNumber(minStiffness), fmtNumber(maxStiffness)))
+			// Both are a force per length, shown as a spring's stiffness.
+			toSI := v.u.Unit(units.TranslationalStiffness).ToSI
+			v.add(Place{Item: it}, fmt.Sprintf("%s: its %s %s is about %s %s (E = %s, %s, ℓ = %s), outside the range the solvers work in (%s): check these values and their units",
+				label(it), k.name, k.symbol, fmtPowerOfTen(k.log10-log10(toSI)), v.unit(units.TranslationalStiffness), v.num(units.Modulus, E), k.factor, v.num(units.Position, l),
+				v.span(units.TranslationalStiffness, minStiffness, maxStiffness)))
 		}
 	}
 }
@@ -431,25 +479,28 @@ func log10(x float64) float64 { return math.Log2(x) * math.Log10(2) }
 // position checks that x lies on the member; it returns false when x is unusable.
 func (v *validator) position(at Place, what string, x float64, lengthKnown bool) bool {
 	if !isFinite(x) {
-		v.add(at, fmt.Sprintf("%s: %s is %v: enter a finite position in m", label(at.Item), what, x))
+		v.add(at, fmt.Sprintf("%s: %s is %v: enter a finite position in %s", label(at.Item), what, x, v.unit(units.Position)))
 		return false
 	}
 	if lengthKnown && (x < -v.tol || x > v.L+v.tol) {
-		here, length := fmtPair(x, v.L)
-		v.add(at, fmt.Sprintf("%s at x = %s m lies outside the member (length %s m)", label(at.Item), here, length))
+		here, length := v.pair(units.Position, x, v.L)
+		v.add(at, fmt.Sprintf("%s at x = %s lies outside the member (length %s)", label(at.Item), here, length))
 		return false
 	}
 	return true
 }
 
-func (v *validator) finite(at Place, what string, value float64, unit string) {
+func (v *validator) finite(at Place, what string, value float64, k units.Kind) {
 	if !isFinite(value) {
-		v.add(at, fmt.Sprintf("%s: %s is %v: enter a finite value in %s", label(at.Item), what, value, unit))
+		v.add(at, fmt.Sprintf("%s: %s is %v: enter a finite %s", label(at.Item), what, value, v.valueIn(k)))
 	}
 }
 
-var dofUnits = [3]string{"m", "m", "rad"}
-var springUnits = [3]string{"N/m", "N/m", "N·m/rad"}
+// The kinds of a support's settlements and spring stiffnesses, by Dof.
+var (
+	settlementKinds = [3]units.Kind{units.Deflection, units.Deflection, units.Rotation}
+	springKinds     = [3]units.Kind{units.TranslationalStiffness, units.TranslationalStiffness, units.RotationalStiffness}
+)
 
 func (v *validator) supports(sups []Support, lengthKnown bool) {
 	earlier := firstEarlierAtSamePoint(sups, v.tol)
@@ -457,7 +508,7 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 		it := Item{Kind: SupportItem, Index: i}
 		if v.position(Place{Item: it, Property: PositionProperty}, "its position", s.X, lengthKnown) {
 			if j := earlier[i]; j >= 0 {
-				v.add(Place{Item: it, Property: PositionProperty}, fmt.Sprintf("supports %d and %d %s: keep one support per point and choose a kind that restrains all the motions you need", j+1, i+1, atOnePoint(sups[j].X, s.X)))
+				v.add(Place{Item: it, Property: PositionProperty}, fmt.Sprintf("supports %d and %d %s: keep one support per point and choose a kind that restrains all the motions you need", j+1, i+1, v.atOnePoint(sups[j].X, s.X)))
 			}
 		}
 		if s.Kind < Fixed || s.Kind > Spring {
@@ -471,12 +522,12 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 			case k != 0 && s.Kind.Restrains(Dof(d)):
 				v.add(at, fmt.Sprintf("support %d is a %s support, which holds the %s motion rigidly, so a stiffness for that motion has no effect: remove it, or choose a kind that leaves the motion free (such as %s) to hold it by a spring", i+1, s.Kind, Dof(d), freeKindFor(Dof(d))))
 			case !isFinite(k):
-				v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %v: enter a finite value in %s", i+1, Dof(d), k, springUnits[d]))
+				v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %v: enter a finite value in %s", i+1, Dof(d), k, v.unit(springKinds[d])))
 			case k < 0:
-				v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %s %s: it must not be negative", i+1, Dof(d), fmtNumber(k), springUnits[d]))
+				v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %s: it must not be negative", i+1, Dof(d), v.num(springKinds[d], k)))
 			case k > 0 && (k < minStiffness || k > maxStiffness):
-				v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %s %s, outside the range the solvers work in (%s to %s %s): enter a stiffness in that range, 0 to leave the motion free, or a rigid support kind to hold it",
-					i+1, Dof(d), fmtNumber(k), springUnits[d], fmtNumber(minStiffness), fmtNumber(maxStiffness), springUnits[d]))
+				v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %s, outside the range the solvers work in (%s): enter a stiffness in that range, 0 to leave the motion free, or a rigid support kind to hold it",
+					i+1, Dof(d), v.num(springKinds[d], k), v.span(springKinds[d], minStiffness, maxStiffness)))
 				stiff = true
 			case k > 0:
 				stiff = true
@@ -488,7 +539,7 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 		}
 		for d := Axial; d <= Rotation; d++ {
 			if s.Kind.Restrains(d) {
-				v.finite(Place{Item: it, Property: SettlementProperty, Dof: d}, fmt.Sprintf("the %s settlement", d), s.Settlement[d], dofUnits[d])
+				v.finite(Place{Item: it, Property: SettlementProperty, Dof: d}, fmt.Sprintf("the %s settlement", d), s.Settlement[d], settlementKinds[d])
 			}
 		}
 	}
@@ -574,9 +625,9 @@ func lowestWithin(xs, queries []float64, tol float64) []int {
 // Poisson's ratio).
 func (v *validator) shearDeformation(i int, s Segment) {
 	at := func(p Property) Place { return Place{Item: Item{Kind: SegmentItem, Index: i}, Property: p} }
-	v.property(at(ShearAreaProperty), "the shear area", s.Section.ShearArea, "m²", true)
-	v.property(at(ShearCoefficientProperty), "the shear coefficient", s.Section.ShearCoefficient, "", true)
-	v.property(at(ShearModulusProperty), "the shear modulus", s.Material.ShearModulus, "Pa", true)
+	v.property(at(ShearAreaProperty), "the shear area", s.Section.ShearArea, units.Area, true)
+	v.property(at(ShearCoefficientProperty), "the shear coefficient", s.Section.ShearCoefficient, plain, true)
+	v.property(at(ShearModulusProperty), "the shear modulus", s.Material.ShearModulus, units.Modulus, true)
 	if nu := s.Material.Poisson; !isFinite(nu) || nu <= -1 || nu > 0.5 {
 		v.add(at(PoissonProperty), fmt.Sprintf("segment %d: Poisson's ratio is %s: enter a value above −1 and at most 0.5 (about 0.3 for steel)", i+1, fmtNumber(nu)))
 	}
@@ -612,11 +663,11 @@ func (v *validator) hinges(m *Model, lengthKnown bool) {
 			continue
 		}
 		if lengthKnown && (h.X <= v.tol || h.X >= v.L-v.tol) {
-			v.add(at, fmt.Sprintf("hinge %d is at an end of the member (x = %s), where there is nothing on the other side to release: move it inside the member or remove it", i+1, fmtMetres(h.X)))
+			v.add(at, fmt.Sprintf("hinge %d is at an end of the member (x = %s), where there is nothing on the other side to release: move it inside the member or remove it", i+1, v.num(units.Position, h.X)))
 			continue
 		}
 		if j := earlier[i]; j >= 0 {
-			v.add(at, fmt.Sprintf("hinges %d and %d %s: keep one hinge per point", j+1, i+1, atOnePoint(m.Hinges[j].X, h.X)))
+			v.add(at, fmt.Sprintf("hinges %d and %d %s: keep one hinge per point", j+1, i+1, v.atOnePoint(m.Hinges[j].X, h.X)))
 		}
 		if k := turning[i]; k >= 0 {
 			// A pure hinge over a support that lets the member turn is
@@ -625,20 +676,20 @@ func (v *validator) hinges(m *Model, lengthKnown bool) {
 			if h.Stiffness > 0 {
 				advice = "move the hinge off the support, or choose a support kind that lets the member turn (pinned, roller)"
 			}
-			v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), which holds the rotation: it cannot say which side the support holds; %s", i+1, k+1, fmtMetres(h.X), advice))
+			v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), which holds the rotation: it cannot say which side the support holds; %s", i+1, k+1, v.num(units.Position, h.X), advice))
 		}
 		if k := propping[i]; k >= 0 && h.Stiffness == 0 {
-			v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), a %s support that already lets the member turn there: a pure hinge would cut the member into separate spans; check each span as its own member, move the hinge into the span, or give it a rotational stiffness for a semi-rigid joint over the support", i+1, k+1, fmtMetres(h.X), m.Supports[k].Kind))
+			v.add(at, fmt.Sprintf("hinge %d is at support %d (x = %s), a %s support that already lets the member turn there: a pure hinge would cut the member into separate spans; check each span as its own member, move the hinge into the span, or give it a rotational stiffness for a semi-rigid joint over the support", i+1, k+1, v.num(units.Position, h.X), m.Supports[k].Kind))
 		}
 		k := h.Stiffness
 		stiff := Place{Item: it, Property: StiffnessProperty}
 		switch {
 		case !isFinite(k):
-			v.add(stiff, fmt.Sprintf("hinge %d: the rotational stiffness is %v: enter a finite value in N·m/rad, or 0 for a pure hinge", i+1, k))
+			v.add(stiff, fmt.Sprintf("hinge %d: the rotational stiffness is %v: enter a finite value in %s, or 0 for a pure hinge", i+1, k, v.unit(units.RotationalStiffness)))
 		case k < 0:
-			v.add(stiff, fmt.Sprintf("hinge %d: the rotational stiffness is %s N·m/rad: it must not be negative (0 makes a pure hinge)", i+1, fmtNumber(k)))
+			v.add(stiff, fmt.Sprintf("hinge %d: the rotational stiffness is %s: it must not be negative (0 makes a pure hinge)", i+1, v.num(units.RotationalStiffness, k)))
 		case k > 0 && (k < minStiffness || k > maxStiffness):
-			v.add(stiff, fmt.Sprintf("hinge %d: the rotational stiffness is %s N·m/rad, outside the range the solvers work in (%s to %s): enter a stiffness in that range, 0 for a pure hinge, or remove the hinge for a rigid joint", i+1, fmtNumber(k), fmtNumber(minStiffness), fmtNumber(maxStiffness)))
+			v.add(stiff, fmt.Sprintf("hinge %d: the rotational stiffness is %s, outside the range the solvers work in (%s): enter a stiffness in that range, 0 for a pure hinge, or remove the hinge for a rigid joint", i+1, v.num(units.RotationalStiffness, k), v.span(units.RotationalStiffness, minStiffness, maxStiffness)))
 		}
 		if m.AxialOnly {
 			v.add(at, fmt.Sprintf("hinge %d releases the bending moment, but %s: remove the hinge, or let the member bend", i+1, axialOnlyWhy))
@@ -657,8 +708,8 @@ func (v *validator) foundations(m *Model, lengthKnown bool) {
 		ends := v.position(at(StartProperty), "its start", f.Start, lengthKnown)
 		ends = v.position(at(EndProperty), "its end", f.End, lengthKnown) && ends
 		if ends && f.End-f.Start <= v.tol {
-			a, b := fmtPair(f.Start, f.End)
-			v.add(at(EndProperty), fmt.Sprintf("foundation %d runs from x = %s m to x = %s m: its end must lie beyond its start", i+1, a, b))
+			a, b := v.pair(units.Position, f.Start, f.End)
+			v.add(at(EndProperty), fmt.Sprintf("foundation %d runs from x = %s to x = %s: its end must lie beyond its start", i+1, a, b))
 			ends = false
 		}
 		moduli := [2]struct {
@@ -670,13 +721,13 @@ func (v *validator) foundations(m *Model, lengthKnown bool) {
 		for _, k := range moduli {
 			switch {
 			case !isFinite(k.k):
-				v.add(at(k.property), fmt.Sprintf("foundation %d: %s is %v: enter a finite value in N/m² (force per metre of member per metre of motion), or 0", i+1, k.name, k.k))
+				v.add(at(k.property), fmt.Sprintf("foundation %d: %s is %v: enter a finite value in %s (force per length of member per length of motion), or 0", i+1, k.name, k.k, v.unit(units.FoundationModulus)))
 				usable = false
 			case k.k < 0:
-				v.add(at(k.property), fmt.Sprintf("foundation %d: %s is %s N/m²: it must not be negative (ground pushes back, it never pulls the member on)", i+1, k.name, fmtNumber(k.k)))
+				v.add(at(k.property), fmt.Sprintf("foundation %d: %s is %s: it must not be negative (ground pushes back, it never pulls the member on)", i+1, k.name, v.num(units.FoundationModulus, k.k)))
 				usable = false
 			case k.k > 0 && (k.k < minStiffness || k.k > maxStiffness):
-				v.add(at(k.property), fmt.Sprintf("foundation %d: %s is %s N/m², outside the range the solvers work in (%s to %s): check the value and its units", i+1, k.name, fmtNumber(k.k), fmtNumber(minStiffness), fmtNumber(maxStiffness)))
+				v.add(at(k.property), fmt.Sprintf("foundation %d: %s is %s, outside the range the solvers work in (%s): check the value and its units", i+1, k.name, v.num(units.FoundationModulus, k.k), v.span(units.FoundationModulus, minStiffness, maxStiffness)))
 				usable = false
 			}
 		}
@@ -694,8 +745,8 @@ func (v *validator) foundations(m *Model, lengthKnown bool) {
 		}
 		for j, seg := range m.Segments {
 			if f.Modulus > 0 && seg.ShearDeformation && seg.Start < f.End-v.tol && seg.End > f.Start+v.tol {
-				a, b := fmtPair(max(seg.Start, f.Start), min(seg.End, f.End))
-				v.add(at(ModulusProperty), fmt.Sprintf("foundation %d lies under segment %d from x = %s m to %s m, which deforms in shear: a Timoshenko beam on a foundation is not solved yet; turn the segment's shear deformation off there or end the foundation before it", i+1, j+1, a, b))
+				a, b := v.pair(units.Position, max(seg.Start, f.Start), min(seg.End, f.End))
+				v.add(at(ModulusProperty), fmt.Sprintf("foundation %d lies under segment %d from x = %s to %s, which deforms in shear: a Timoshenko beam on a foundation is not solved yet; turn the segment's shear deformation off there or end the foundation before it", i+1, j+1, a, b))
 			}
 		}
 	}
@@ -721,14 +772,14 @@ func (v *validator) pointLoads(loads []PointLoad, lengthKnown bool) {
 			return Place{Item: Item{Kind: PointLoadItem, Index: i, Case: v.loadCase}, Property: p}
 		}
 		v.position(at(PositionProperty), "its position", p.X, lengthKnown)
-		v.finite(at(AxialForceProperty), "the axial force", p.Axial, "N")
-		v.finite(at(TransverseForceProperty), "the transverse force", p.Transverse, "N")
-		v.finite(at(MomentProperty), "the moment", p.Moment, "N·m")
+		v.finite(at(AxialForceProperty), "the axial force", p.Axial, units.Force)
+		v.finite(at(TransverseForceProperty), "the transverse force", p.Transverse, units.Force)
+		v.finite(at(MomentProperty), "the moment", p.Moment, units.Moment)
 		// A moment at a hinge turns one of the two parts the hinge joins,
 		// and the model cannot say which (the solutions would each pick a
 		// side, and not the same one).
 		if j := hinge[i]; j >= 0 {
-			v.add(at(PositionProperty), fmt.Sprintf("point load %d puts a moment on hinge %d (x = %s), which turns only one of the two parts the hinge joins, and the model cannot say which: move the load a little to the left or the right of the hinge, onto the part it turns", i+1, j+1, fmtMetres(v.modelHinges[j].X)))
+			v.add(at(PositionProperty), fmt.Sprintf("point load %d puts a moment on hinge %d (x = %s), which turns only one of the two parts the hinge joins, and the model cannot say which: move the load a little to the left or the right of the hinge, onto the part it turns", i+1, j+1, v.num(units.Position, v.modelHinges[j].X)))
 		}
 	}
 }
@@ -748,14 +799,14 @@ func (v *validator) distributedLoads(loads []DistributedLoad, lengthKnown bool) 
 		for j, p := range d.Points {
 			x := Place{Item: it, Property: PointXProperty, Vertex: j}
 			if !isFinite(p.X) {
-				v.add(x, fmt.Sprintf("distributed load %d: point %d has position %v: enter a finite position in m", i+1, j+1, p.X))
+				v.add(x, fmt.Sprintf("distributed load %d: point %d has position %v: enter a finite position in %s", i+1, j+1, p.X, v.unit(units.Position)))
 				usable = false
 			} else if lengthKnown && (p.X < -v.tol || p.X > v.L+v.tol) {
-				here, length := fmtPair(p.X, v.L)
-				v.add(x, fmt.Sprintf("distributed load %d: point %d at x = %s m lies outside the member (length %s m)", i+1, j+1, here, length))
+				here, length := v.pair(units.Position, p.X, v.L)
+				v.add(x, fmt.Sprintf("distributed load %d: point %d at x = %s lies outside the member (length %s)", i+1, j+1, here, length))
 			}
 			if !isFinite(p.Intensity) {
-				v.add(Place{Item: it, Property: PointIntensityProperty, Vertex: j}, fmt.Sprintf("distributed load %d: point %d has intensity %v: enter a finite value in N/m", i+1, j+1, p.Intensity))
+				v.add(Place{Item: it, Property: PointIntensityProperty, Vertex: j}, fmt.Sprintf("distributed load %d: point %d has intensity %v: enter a finite value in %s", i+1, j+1, p.Intensity, v.unit(units.LineLoad)))
 			}
 		}
 		if !usable {
@@ -763,17 +814,17 @@ func (v *validator) distributedLoads(loads []DistributedLoad, lengthKnown bool) 
 		}
 		first, last := d.Points[0].X, d.Points[len(d.Points)-1].X
 		if math.Abs(last-first) <= v.tol {
-			v.add(points, fmt.Sprintf("distributed load %d starts and ends at x = %s: give it a length", i+1, fmtMetres(first)))
+			v.add(points, fmt.Sprintf("distributed load %d starts and ends at x = %s: give it a length", i+1, v.num(units.Position, first)))
 			continue
 		}
 		for j := 1; j < len(d.Points); j++ {
 			if d.Points[j].X-d.Points[j-1].X <= v.tol {
-				here, before := fmtPair(d.Points[j].X, d.Points[j-1].X)
-				where := fmt.Sprintf("does not lie beyond point %d (x = %s m)", j, before)
+				here, before := v.pair(units.Position, d.Points[j].X, d.Points[j-1].X)
+				where := fmt.Sprintf("does not lie beyond point %d (x = %s)", j, before)
 				if d.Points[j].X > d.Points[j-1].X {
-					where = fmt.Sprintf("lies beyond point %d (x = %s m) by less than %g of the member's length, so they count as one point", j, before, mergeTolerance)
+					where = fmt.Sprintf("lies beyond point %d (x = %s) by less than %g of the member's length, so they count as one point", j, before, mergeTolerance)
 				}
-				v.add(Place{Item: it, Property: PointXProperty, Vertex: j}, fmt.Sprintf("distributed load %d: point %d (x = %s m) %s: list the points in increasing x without repeats", i+1, j+1, here, where))
+				v.add(Place{Item: it, Property: PointXProperty, Vertex: j}, fmt.Sprintf("distributed load %d: point %d (x = %s) %s: list the points in increasing x without repeats", i+1, j+1, here, where))
 				break
 			}
 		}
@@ -786,7 +837,7 @@ func (v *validator) mesh(m *Model, lengthKnown bool) {
 		v.add(Place{Item: meshItem, Property: ElementsProperty}, fmt.Sprintf("the mesh asks for %d elements: give zero (automatic) or a positive number", ms.Elements))
 	}
 	if h := ms.MaxElementLength; !isFinite(h) || h < 0 {
-		v.add(Place{Item: meshItem, Property: MaxElementLengthProperty}, fmt.Sprintf("the maximum element length is %v m: give zero (no limit) or a positive length", h))
+		v.add(Place{Item: meshItem, Property: MaxElementLengthProperty}, fmt.Sprintf("the maximum element length is %s: give zero (no limit) or a positive length", v.num(units.Position, h)))
 	}
 	if ms.BarOrder != 0 && ms.BarOrder != LinearBar && ms.BarOrder != QuadraticBar {
 		v.add(Place{Item: meshItem, Property: BarOrderProperty}, fmt.Sprintf("the bar element order is %d: choose 1 (linear) or 2 (quadratic)", int(ms.BarOrder)))
@@ -862,7 +913,7 @@ func fmtDigits(x float64, digits int) string {
 	if significantDigits(s) > digits {
 		s = strconv.FormatFloat(x, 'g', digits, 64)
 	}
-	if !strings.ContainsAny(s, ".eEn") { // n: NaN, Inf
+	if !strings.ContainsAny(s, ".eEnN") { // n, N: NaN, Inf
 		s += ".0"
 	}
 	return s
@@ -904,14 +955,14 @@ func digitsApart(xs []float64) int {
 // atOnePoint says that two items at a and b, within the merge tolerance of
 // each other, stand at one point: "are both at x = 2.0 m", or, where their
 // places print apart (0 and 1e-12 m), both places and why.
-func atOnePoint(a, b float64) string {
-	if fmtNumber(a) == fmtNumber(b) {
-		return "are both at x = " + fmtMetres(b)
+func (v *validator) atOnePoint(a, b float64) string {
+	if pa, pb := v.num(units.Position, a), v.num(units.Position, b); pa != pb {
+		return fmt.Sprintf("are at x = %s and x = %s, which count as one point (closer than %g of the member's length)", pa, pb, mergeTolerance)
 	}
-	return fmt.Sprintf("are at x = %s and x = %s, which count as one point (closer than %g of the member's length)", fmtMetres(a), fmtMetres(b), mergeTolerance)
+	return "are both at x = " + v.num(units.Position, b)
 }
 
-// fmtMetres prints a position for messages, e.g. "3.2 m".
+// fmtMetres prints a position for messages of the solvers, e.g. "3.2 m".
 func fmtMetres(x float64) string { return fmtNumber(x) + " m" }
 
 // fmtPowerOfTen prints 10^e, for e = log10 of a value that may lie outside

@@ -8,6 +8,8 @@ import (
 	"slices"
 	"strings"
 	"testing"
+
+	"stave/fem/units"
 )
 
 // duplicateSupports returns the "both at x" sentences Validate gives m, in order.
@@ -95,7 +97,7 @@ func TestValidateDuplicateSupportsAsEveryPair(t *testing.T) {
 		for i, s := range m.Supports {
 			for j := range i {
 				if math.Abs(m.Supports[j].X-s.X) <= tol {
-					want = append(want, fmt.Sprintf("supports %d and %d %s", j+1, i+1, atOnePoint(m.Supports[j].X, s.X)))
+					want = append(want, fmt.Sprintf("supports %d and %d %s", j+1, i+1, (&validator{u: units.Base}).atOnePoint(m.Supports[j].X, s.X)))
 					break
 				}
 			}

@@ -4,6 +4,7 @@ import (
 	"fmt"
 
 	"stave/fem/moving"
+	"stave/fem/units"
 )
 
 // Trains are a version 2 addition: moving load trains (package fem/moving),
@@ -104,7 +105,7 @@ func trainProblems(p *Project) []Problem {
 		if fault := textFault(t.Name, false); fault != "" {
 			out = append(out, Problem{Path: path + ".name", Message: fault})
 		}
-		for _, q := range t.OwnProblems() {
+		for _, q := range t.OwnProblems(units.Base) {
 			where := path
 			if q.Key != "" {
 				where += "." + q.Key

@@ -9,6 +9,7 @@ import (
 
 	"stave/fem"
 	"stave/fem/moving"
+	"stave/fem/units"
 )
 
 // Trains (version 2) survive saving and loading, and are written in the
@@ -108,7 +109,7 @@ func TestTrainsThatDoNotFitStillOpen(t *testing.T) {
 		t.Fatalf("the file does not open: %v", err)
 	}
 	for i, says := range []string{"does not fit on the 4 m", "Stave takes at most 100000"} {
-		if err := back.Trains[i].Check(back.Model.Length(), i); err == nil || !strings.Contains(err.Error(), says) {
+		if err := back.Trains[i].Check(back.Model.Length(), i, units.Base); err == nil || !strings.Contains(err.Error(), says) {
 			t.Errorf("train %d: %v, want a message saying %q", i+1, err, says)
 		}
 	}

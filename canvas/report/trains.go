@@ -9,6 +9,7 @@ import (
 	"stave/fem"
 	"stave/fem/analysis"
 	"stave/fem/moving"
+	"stave/fem/units"
 	"stave/storage"
 )
 
@@ -109,7 +110,7 @@ func trainResults(p *storage.Project, in *moving.Influence, mesh fem.Mesh, targe
 func trainResult(p *storage.Project, i int, in *moving.Influence, mesh fem.Mesh, target *moving.Target, envelope bool,
 	arranged func() (*fem.CombinationSolutions, error), tr *TrainResult) error {
 	t := &p.Trains[i]
-	if err := t.Check(p.Model.Length(), i); err != nil {
+	if err := t.Check(p.Model.Length(), i, units.Base); err != nil {
 		return err
 	}
 	if target != nil {

@@ -6,6 +6,7 @@ import (
 	"testing"
 
 	"stave/fem"
+	"stave/fem/units"
 )
 
 // The worst effect of a train is summed from each axle's piece of the
@@ -142,7 +143,7 @@ func TestWorstNotShortOfPositionsOneByOne(t *testing.T) {
 		if rng.Intn(3) == 0 {
 			tr.Uniform = UniformLoad{Load: 1e3, Length: 0.3 * L}
 		}
-		if tr.Check(L, 0) != nil {
+		if tr.Check(L, 0, units.Base) != nil {
 			continue // a train too long for its run
 		}
 		x := L * rng.Float64()

@@ -9,6 +9,7 @@ import (
 	"strings"
 
 	"stave/fem"
+	"stave/fem/units"
 )
 
 // Direction says which way a train moves.
@@ -141,28 +142,30 @@ type Problem struct {
 
 // Problems lists everything wrong with t on a member of length L: its own
 // problems (OwnProblems), then whether its run lies on the member, whether
-// it fits on its run and how many positions its step gives.
-func (t *Train) Problems(L float64) []Problem {
-	out := t.OwnProblems()
+// it fits on its run and how many positions its step gives. The messages
+// quote values in u: the display units of a window, or units.Base.
+func (t *Train) Problems(L float64, u units.System) []Problem {
+	out := t.OwnProblems(u)
 	if len(out) > 0 {
 		return out // the rest needs a sound train
 	}
 	add := func(key, format string, args ...any) {
 		out = append(out, Problem{key, fmt.Sprintf(format, args...)})
 	}
+	x := func(v float64) string { return quote(u, units.Position, v) }
 	from, to := t.Run(L)
 	switch {
 	case !(from >= 0) || !finite(from) || from >= L:
-		add("from", "the train's run starts at x = %s m, which is not on the member (0 to %s m)", trim(from), trim(L))
+		add("from", "the train's run starts at x = %s, which is not on the member (0 to %s)", x(from), x(L))
 	case !(to > from) || !finite(to) || to > L*(1+keyTolerance):
-		add("to", "the train's run ends at x = %s m: enter a point after its start (%s m) and on the member (up to %s m), or 0 for the member's end", trim(t.To), trim(from), trim(L))
+		add("to", "the train's run ends at x = %s: enter a point after its start (%s) and on the member (up to %s), or 0 for the member's end", x(t.To), x(from), x(L))
 	}
 	if len(out) > 0 {
 		return out
 	}
 	run, length := to-from, t.Length()
 	if start, end := t.OffAt(L); length > run*(1+keyTolerance) && !start && !end {
-		add("", "the train is %s m long and does not fit on the %s m it runs along (x = %s to %s m): shorten the train or lengthen its run", trim(length), trim(run), trim(from), trim(to))
+		add("", "the train is %s long and does not fit on the %s it runs along (x = %s to %s): shorten the train or lengthen its run", x(length), x(run), x(from), x(to))
 		return out
 	}
 	lo, hi := t.Fronts(L)
@@ -174,7 +177,7 @@ func (t *Train) Problems(L float64) []Problem {
 				count = "more than 1e+308" // nor is +Inf
 			}
 		}
-		add("step", "a step of %s m takes %s positions along the %s m the train can move; Stave takes at most %d: enter a step of at least %s m", trim(t.Step), count, trim(hi-lo), MaxPositions, trim((hi-lo)/(MaxPositions-1)))
+		add("step", "a step of %s takes %s positions along the %s the train can move; Stave takes at most %d: enter a step of at least %s", x(t.Step), count, x(hi-lo), MaxPositions, x((hi-lo)/(MaxPositions-1)))
 	}
 	return out
 }
@@ -209,14 +212,16 @@ func (t *Train) Fronts(L float64) (lo, hi float64) {
 func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
 
 // OwnProblems lists what is wrong with t whatever member it runs on: its
-// loads, spacings, uniform load, direction and step. A file refuses these;
-// the rest (Problems) depends on the member, which may change after the
-// train was made, and is reported when the train is used.
-func (t *Train) OwnProblems() []Problem {
+// loads, spacings, uniform load, direction and step, quoting values in u.
+// A file refuses these; the rest (Problems) depends on the member, which
+// may change after the train was made, and is reported when the train is
+// used.
+func (t *Train) OwnProblems(u units.System) []Problem {
 	var out []Problem
 	add := func(key, format string, args ...any) {
 		out = append(out, Problem{key, fmt.Sprintf(format, args...)})
 	}
+	x := func(v float64) string { return quote(u, units.Position, v) }
 	if len(t.Axles) == 0 && t.Uniform.Load == 0 {
 		add("", "it has no loads: give it at least one axle or a uniform load")
 	}
@@ -225,45 +230,50 @@ func (t *Train) OwnProblems() []Problem {
 	}
 	for i, a := range t.Axles {
 		if !(a.Load > 0) || !finite(a.Load) {
-			add(fmt.Sprintf("axles[%d].load", i), "axle %d has a load of %s N: an axle load is a weight acting down, enter it above zero", i+1, trim(a.Load))
+			add(fmt.Sprintf("axles[%d].load", i), "axle %d has a load of %s: an axle load is a weight acting down, enter it above zero", i+1, quote(u, units.Force, a.Load))
 		}
 		switch {
 		case i == 0 && a.Spacing != 0:
-			add("axles[0].spacing", "the first axle has a spacing of %s m, but nothing stands before it: leave its spacing out (or 0)", trim(a.Spacing))
+			add("axles[0].spacing", "the first axle has a spacing of %s, but nothing stands before it: leave its spacing out (or 0)", x(a.Spacing))
 		case i > 0 && (!(a.Spacing > 0) || !finite(a.Spacing)):
-			add(fmt.Sprintf("axles[%d].spacing", i), "axle %d stands %s m from axle %d: a spacing must be above zero (two wheels at one place are one axle: add their loads)", i+1, trim(a.Spacing), i)
+			add(fmt.Sprintf("axles[%d].spacing", i), "axle %d stands %s from axle %d: a spacing must be above zero (two wheels at one place are one axle: add their loads)", i+1, x(a.Spacing), i)
 		}
 	}
-	if u := t.Uniform; u.Load != 0 || u.Length != 0 || u.Start != 0 {
-		if !(u.Load > 0) || !finite(u.Load) {
-			add("uniform.load", "the uniform load is %s N/m: enter it above zero (acting down), or leave the uniform load out", trim(u.Load))
+	if ul := t.Uniform; ul.Load != 0 || ul.Length != 0 || ul.Start != 0 {
+		if !(ul.Load > 0) || !finite(ul.Load) {
+			add("uniform.load", "the uniform load is %s: enter it above zero (acting down), or leave the uniform load out", quote(u, units.LineLoad, ul.Load))
 		}
-		if !(u.Length > 0) || !finite(u.Length) {
-			add("uniform.length", "the uniform load is %s m long: enter a length above zero", trim(u.Length))
+		if !(ul.Length > 0) || !finite(ul.Length) {
+			add("uniform.length", "the uniform load is %s long: enter a length above zero", x(ul.Length))
 		}
-		if !(u.Start >= 0) || !finite(u.Start) {
-			add("uniform.start", "the uniform load starts %s m behind the front: enter zero or more", trim(u.Start))
+		if !(ul.Start >= 0) || !finite(ul.Start) {
+			add("uniform.start", "the uniform load starts %s behind the front: enter zero or more", x(ul.Start))
 		}
 	}
 	if t.Direction < BothWays || t.Direction > Backward {
 		add("direction", "the direction is not one of %s", strings.Join(directionNames[:], ", "))
 	}
 	if !(t.From >= 0) || !finite(t.From) {
-		add("from", "the train's run starts at x = %s m: enter zero or more", trim(t.From))
+		add("from", "the train's run starts at x = %s: enter zero or more", x(t.From))
 	}
 	if !(t.To >= 0) || !finite(t.To) {
-		add("to", "the train's run ends at x = %s m: enter a point on the member, or 0 for the member's end", trim(t.To))
+		add("to", "the train's run ends at x = %s: enter a point on the member, or 0 for the member's end", x(t.To))
 	}
 	if !(t.Step >= 0) || !finite(t.Step) {
-		add("step", "the step is %s m: enter a step above zero, or 0 to take it from the mesh", trim(t.Step))
+		add("step", "the step is %s: enter a step above zero, or 0 to take it from the mesh", x(t.Step))
 	}
 	return out
 }
 
+// quote prints v, an SI value of kind k, in u's unit: "3.2 m", "10.5 ft".
+func quote(u units.System, k units.Kind, v float64) string {
+	return trim(u.ToDisplay(k, v)) + " " + u.Unit(k).Symbol
+}
+
 // Check returns the problems of t as one error naming the train (its
-// number i in a list, when it has no name), or nil.
-func (t *Train) Check(L float64, i int) error {
-	ps := t.Problems(L)
+// number i in a list, when it has no name), or nil; its values are in u.
+func (t *Train) Check(L float64, i int, u units.System) error {
+	ps := t.Problems(L, u)
 	if len(ps) == 0 {
 		return nil
 	}
@@ -392,7 +402,7 @@ type run struct {
 // runs are t's positions on a member of length L with the given step (0
 // takes it from mesh): one run per direction it moves in.
 func (t *Train) runs(L float64, mesh fem.Mesh) ([]run, error) {
-	if err := t.Check(L, 0); err != nil {
+	if err := t.Check(L, 0, units.Base); err != nil {
 		return nil, err
 	}
 	from, to := t.Run(L)

@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"stave/fem"
+	"stave/fem/units"
 )
 
 // Two equal loads P a distance d apart crossing a simple beam of span L:
@@ -251,7 +252,7 @@ func TestTrainProblems(t *testing.T) {
 			tr := ok
 			tr.Axles = slices.Clone(ok.Axles)
 			c.change(&tr)
-			ps := tr.Problems(10)
+			ps := tr.Problems(10, units.Base)
 			found := false
 			for _, p := range ps {
 				found = found || (p.Key == c.key && strings.Contains(p.Message, c.says))
@@ -261,14 +262,14 @@ func TestTrainProblems(t *testing.T) {
 			}
 		})
 	}
-	if ps := ok.Problems(10); len(ps) != 0 {
+	if ps := ok.Problems(10, units.Base); len(ps) != 0 {
 		t.Errorf("a sound train has problems: %+v", ps)
 	}
 	most := Train{Axles: []Axle{{Load: 1e3}}}
 	for len(most.Axles) < MaxAxles {
 		most.Axles = append(most.Axles, Axle{Load: 1e3, Spacing: 1e-3})
 	}
-	if ps := most.Problems(10); len(ps) != 0 {
+	if ps := most.Problems(10, units.Base); len(ps) != 0 {
 		t.Errorf("a train of %d axles has problems: %+v", MaxAxles, ps)
 	}
 }

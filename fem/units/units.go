@@ -156,6 +156,33 @@ var USCustomary = System{Name: "US", Units: [kindCount]Unit{
 	FoundationModulus:      {"kip/ft²", kip / (foot * foot)},
 }}
 
+// Base shows every value in the SI base units the fem package works in
+// (m, N, N·m, Pa, ...), as a file holds them: the units of messages that
+// are not shown in a system of display units. It is not a display system
+// (Systems does not list it). Treat as read-only.
+var Base = System{Name: "SI base", Units: [kindCount]Unit{
+	Position:               {"m", 1},
+	Dimension:              {"m", 1},
+	Deflection:             {"m", 1},
+	Rotation:               {"rad", 1},
+	Force:                  {"N", 1},
+	Moment:                 {"N·m", 1},
+	LineLoad:               {"N/m", 1},
+	Stress:                 {"Pa", 1},
+	Modulus:                {"Pa", 1},
+	Area:                   {"m²", 1},
+	SecondMoment:           {"m⁴", 1},
+	SectionModulus:         {"m³", 1},
+	Density:                {"kg/m³", 1},
+	ThermalExpansion:       {"1/K", 1},
+	TemperatureChange:      {"K", 1},
+	TranslationalStiffness: {"N/m", 1},
+	RotationalStiffness:    {"N·m/rad", 1},
+	Acceleration:           {"m/s²", 1},
+	Energy:                 {"J", 1},
+	FoundationModulus:      {"N/m²", 1},
+}}
+
 // extraUnits are further units Parse accepts for a quantity, beyond the two
 // systems' own, so a user may type "300 mm" for a position or "0.3 m" for a
 // depth.

@@ -1,0 +1,78 @@
+package app
+
+import (
+	"slices"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/dialog"
+	"fyne.io/fyne/v2/widget"
+)
+
+// dialogStack holds the dialogs open on a window, the last shown on top,
+// so that Escape can close the top one. Every dialog of the window is
+// shown through show.
+type dialogStack struct {
+	open []dialog.Dialog
+}
+
+// show shows d; until it closes, Escape dismisses it as its Cancel or
+// Close button does (dismiss).
+func (s *dialogStack) show(d dialog.Dialog) {
+	s.open = append(s.open, d)
+	d.SetOnClosed(func() {
+		s.open = slices.DeleteFunc(s.open, func(o dialog.Dialog) bool { return o == d })
+	})
+	d.Show()
+}
+
+// dismiss closes the top dialog without its affirmative action, and
+// reports whether one was open.
+func (s *dialogStack) dismiss() bool {
+	if len(s.open) == 0 {
+		return false
+	}
+	s.open[len(s.open)-1].Dismiss()
+	return true
+}
+
+// showDialog shows d on the window: every dialog of the window goes
+// through it, so that Escape closes it.
+func (w *Window) showDialog(d dialog.Dialog) { w.dialogs.show(d) }
+
+// showError shows err in a dialog.
+func (w *Window) showError(err error) { w.showDialog(dialog.NewError(err, w.win)) }
+
+// escape is what Escape does in an entry of the window: it closes the
+// dialog on top as its Cancel button does, leaving what was typed there
+// unused, or, with no dialog open (in the properties panel), gives the
+// focus back to the drawing, where the keys of the menus act, leaving
+// what was typed and not applied in the entry.
+func (w *Window) escape() {
+	if !w.dialogs.dismiss() {
+		w.win.Canvas().Focus(w.draw)
+	}
+}
+
+// escEntry is an entry that hands Escape to OnEscape (which the window
+// sets to its escape): a focused widget takes every key, so without it
+// Escape in a field of a dialog did nothing.
+type escEntry struct {
+	widget.Entry
+	OnEscape func()
+}
+
+// newEscEntry is an empty single-line escEntry.
+func newEscEntry() *escEntry {
+	e := &escEntry{}
+	e.ExtendBaseWidget(e)
+	return e
+}
+
+// TypedKey is part of fyne.Focusable.
+func (e *escEntry) TypedKey(k *fyne.KeyEvent) {
+	if k.Name == fyne.KeyEscape && e.OnEscape != nil {
+		e.OnEscape()
+		return
+	}
+	e.Entry.TypedKey(k)
+}
