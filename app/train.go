@@ -592,7 +592,9 @@ func (mw *movingWindow) modelChanged() {
 		mw.status.SetText("no train yet: press New to add one")
 		return
 	}
-	t := mw.w.project.Trains[mw.index]
+	// The envelope's goroutine reads its own copy: the axles of the
+	// project's train may change while it runs.
+	t := moving.CloneTrains(mw.w.project.Trains[mw.index : mw.index+1])[0]
 	if err := t.Check(p.Model.Length(), mw.index, mw.w.units); err != nil {
 		mw.status.SetText(err.Error())
 		return
