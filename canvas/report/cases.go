@@ -447,8 +447,12 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 			u.Format(k, q.Min.Value), pos(q.Min.X), governingWords(q.Min, u))
 	}
 	tw.Flush()
-	fmt.Fprintln(tw, "\nReaction envelope (forces of the supports on the member)")
-	fmt.Fprintln(tw, "  support\tx\tcomponent\tlargest\tgoverning\tsmallest\tgoverning")
+	if len(r.Envelope.Reactions) == 0 {
+		fmt.Fprintln(tw, "\nReaction envelope: none, "+noSupports+" (its resultant: Ground envelope, below)")
+	} else {
+		fmt.Fprintln(tw, "\nReaction envelope (forces of the supports on the member)")
+		fmt.Fprintln(tw, "  support\tx\tcomponent\tlargest\tgoverning\tsmallest\tgoverning")
+	}
 	for _, re := range r.Envelope.Reactions {
 		for d, name := range componentNames {
 			k := units.Force
