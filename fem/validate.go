@@ -515,7 +515,9 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 			v.add(Place{Item: it, Property: KindProperty}, fmt.Sprintf("support %d has an unknown kind (%d): choose fixed, pinned, roller, axial, guided or spring", i+1, int(s.Kind)))
 			continue
 		}
-		stiff := false
+		// given: some stiffness is positive, or is refused by a message of
+		// its own, so "no stiffness in any direction" would not be true.
+		given := false
 		for d, k := range s.Stiffness {
 			at := Place{Item: it, Property: MotionStiffnessProperty, Dof: Dof(d)}
 			switch {
@@ -523,17 +525,19 @@ func (v *validator) supports(sups []Support, lengthKnown bool) {
 				v.add(at, fmt.Sprintf("support %d is a %s support, which holds the %s motion rigidly, so a stiffness for that motion has no effect: remove it, or choose a kind that leaves the motion free (such as %s) to hold it by a spring", i+1, s.Kind, Dof(d), freeKindFor(Dof(d))))
 			case !isFinite(k):
 				v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %v: enter a finite value in %s", i+1, Dof(d), k, v.unit(springKinds[d])))
+				given = true
 			case k < 0:
 				v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %s: it must not be negative", i+1, Dof(d), v.num(springKinds[d], k)))
+				given = true
 			case k > 0 && (k < minStiffness || k > maxStiffness):
 				v.add(at, fmt.Sprintf("support %d: the %s spring stiffness is %s, outside the range the solvers work in (%s): enter a stiffness in that range, 0 to leave the motion free, or a rigid support kind to hold it",
 					i+1, Dof(d), v.num(springKinds[d], k), v.span(springKinds[d], minStiffness, maxStiffness)))
-				stiff = true
+				given = true
 			case k > 0:
-				stiff = true
+				given = true
 			}
 		}
-		if s.Kind == Spring && !stiff {
+		if s.Kind == Spring && !given {
 			v.add(Place{Item: it, Property: StiffnessProperty}, fmt.Sprintf("support %d is a spring with no stiffness in any direction: give at least one positive stiffness or remove it", i+1))
 			continue
 		}

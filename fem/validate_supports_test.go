@@ -116,3 +116,41 @@ func firstDifference(a, b []string) int {
 	}
 	return min(len(a), len(b))
 }
+
+// A spring whose stiffnesses are refused one by one (negative, not finite)
+// draws only those refusals: it is not also called a spring with no
+// stiffness, which would send the user to look for a value they did give.
+// A spring with every stiffness 0 still draws that message alone.
+func TestValidateRefusedSpringStiffnessIsTheOnlyMessage(t *testing.T) {
+	nan, inf := math.NaN(), math.Inf(1)
+	tests := []struct {
+		name      string
+		stiffness [3]float64
+		want      []Property // the properties of support 2 that draw a problem, in order
+	}{
+		{"negative", [3]float64{0, -75000, 0}, []Property{MotionStiffnessProperty}},
+		{"NaN", [3]float64{0, nan, 0}, []Property{MotionStiffnessProperty}},
+		{"infinite", [3]float64{inf, 0, 0}, []Property{MotionStiffnessProperty}},
+		{"two negative", [3]float64{-1, -2, 0}, []Property{MotionStiffnessProperty, MotionStiffnessProperty}},
+		{"none", [3]float64{}, []Property{StiffnessProperty}},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			m := validModel()
+			m.Supports[1] = Support{X: 3, Kind: Spring, Stiffness: tt.stiffness}
+			var ve *ValidationError
+			if err := m.Validate(); !errors.As(err, &ve) {
+				t.Fatalf("got %v, want a *ValidationError", err)
+			}
+			var got []Property
+			for _, p := range ve.Problems {
+				if p.Place.Item == (Item{Kind: SupportItem, Index: 1}) {
+					got = append(got, p.Place.Property)
+				}
+			}
+			if !slices.Equal(got, tt.want) {
+				t.Errorf("support 2 draws problems at %v, want %v:\n%v", got, tt.want, ve)
+			}
+		})
+	}
+}

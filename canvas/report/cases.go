@@ -42,6 +42,10 @@ type CaseJSON struct {
 	// through the depth act in this case.
 	TemperatureDifferences bool `json:"temperature_differences"`
 	BySpan                 bool `json:"by_span"`
+	// PointLoads and DistributedLoads count the case's own loads, for the
+	// text's description of the case; the document leaves the loads to
+	// the model's file.
+	PointLoads, DistributedLoads int `json:"-"`
 	*Results
 }
 
@@ -161,7 +165,8 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 			return nil, fmt.Errorf("load case %q: %w", lc.Name, err)
 		}
 		out.Cases = append(out.Cases, CaseJSON{Name: lc.Name, SelfWeight: lc.SelfWeight, TemperatureChange: lc.TemperatureChange,
-			Settlements: lc.Settlements, TemperatureDifferences: lc.ThermalGradient, BySpan: lc.BySpan, Results: resultsOf(s)})
+			Settlements: lc.Settlements, TemperatureDifferences: lc.ThermalGradient, BySpan: lc.BySpan,
+			PointLoads: len(lc.PointLoads), DistributedLoads: len(lc.DistributedLoad), Results: resultsOf(s)})
 	}
 	for k, cb := range c.Combinations {
 		cj := CombinationJSON{Name: cb.Name, Kind: cb.Kind.String(), Label: cb.Label}
@@ -410,6 +415,17 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 	fmt.Fprintln(tw, "Load cases")
 	for _, c := range r.Cases {
 		var marks []string
+		for _, n := range []struct {
+			count int
+			what  string
+		}{{c.PointLoads, "point load"}, {c.DistributedLoads, "distributed load"}} {
+			switch {
+			case n.count == 1:
+				marks = append(marks, "1 "+n.what)
+			case n.count > 1:
+				marks = append(marks, fmt.Sprintf("%d %ss", n.count, n.what))
+			}
+		}
 		if c.SelfWeight {
 			marks = append(marks, "self-weight")
 		}
@@ -447,8 +463,12 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 			u.Format(k, q.Min.Value), pos(q.Min.X), governingWords(q.Min, u))
 	}
 	tw.Flush()
-	fmt.Fprintln(tw, "\nReaction envelope (forces of the supports on the member)")
-	fmt.Fprintln(tw, "  support\tx\tcomponent\tlargest\tgoverning\tsmallest\tgoverning")
+	if len(r.Envelope.Reactions) == 0 {
+		fmt.Fprintln(tw, "\nReaction envelope: none, "+noSupports+" (its resultant: Ground envelope, below)")
+	} else {
+		fmt.Fprintln(tw, "\nReaction envelope (forces of the supports on the member)")
+		fmt.Fprintln(tw, "  support\tx\tcomponent\tlargest\tgoverning\tsmallest\tgoverning")
+	}
 	for _, re := range r.Envelope.Reactions {
 		for d, name := range componentNames {
 			k := units.Force

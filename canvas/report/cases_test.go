@@ -308,3 +308,45 @@ func TestCasesTextNamesTheTemperatureChange(t *testing.T) {
 		t.Errorf("the text does not give case winter's temperature change as -20.00 °F:\n%s", text.String())
 	}
 }
+
+// Each case's line in the cases text says what the case holds, its own
+// loads counted first ("2 point loads, 1 distributed load"), then what
+// else acts in it; a case of loads alone is not left blank.
+func TestCasesTextSaysWhatEachCaseHolds(t *testing.T) {
+	p, err := storage.Load("../../testdata/two_span_cases.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	m := &p.Model
+	m.Gravity = [2]float64{0, -9.80665}
+	m.Segments[0].Material.Density = 7850
+	point := func(x float64) fem.PointLoad { return fem.PointLoad{X: x, Transverse: -5e3} }
+	m.Cases[0].PointLoads = []fem.PointLoad{point(2), point(6)}
+	m.Cases[1].PointLoads = []fem.PointLoad{point(1)}
+	m.Cases[1].DistributedLoad = append(m.Cases[1].DistributedLoad, m.Cases[0].DistributedLoad...)
+	m.Cases = append(m.Cases, fem.LoadCase{Name: "own weight", SelfWeight: true})
+	want := map[string]string{ // case: its description
+		"both spans": "2 point loads, 1 distributed load",
+		"first span": "1 point load, 2 distributed loads",
+		"imposed":    "1 distributed load, placed by span",
+		"own weight": "self-weight",
+	}
+	src, err := Analyse(context.Background(), p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := CasesResults(src.Analysis)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var text bytes.Buffer
+	WriteCasesText(&text, "model.json", r, units.SI)
+	lines := strings.Split(text.String(), "\n")
+	for name, says := range want {
+		if !slices.ContainsFunc(lines, func(l string) bool {
+			return strings.HasPrefix(l, "  "+name+"  ") && strings.TrimSpace(strings.TrimPrefix(l, "  "+name)) == says
+		}) {
+			t.Errorf("case %q is not described as %q:\n%s", name, says, text.String())
+		}
+	}
+}

@@ -307,3 +307,46 @@ func TestEnvelopeOfNoSupportsIsAnEmptyList(t *testing.T) {
 		t.Errorf("envelope.foundations is %s, want a list of one foundation", doc.Envelope.Foundations)
 	}
 }
+
+// A beam the ground alone holds: the solve text and the cases text say
+// there are no supports and point to the ground's resultant, rather than
+// print a reactions table's headings over no rows. The JSON keeps its
+// empty lists (TestEnvelopeOfNoSupportsIsAnEmptyList).
+func TestTextOfNoSupportsPointsToTheGround(t *testing.T) {
+	const L = 10.0 // m
+	load := []fem.PointLoad{{X: 3, Transverse: -50e3}}
+	alone := groundProject(L, 2e8, 2e7, fem.MeshSettings{Elements: 20})
+	alone.Model.Supports = nil
+	alone.Model.PointLoads = load
+	withCases := groundProject(L, 2e8, 2e7, fem.MeshSettings{Elements: 20})
+	withCases.Model.Supports = nil
+	withCases.Model.Cases = []fem.LoadCase{{Name: "imposed", PointLoads: load}}
+
+	_, solveText := solveProject(t, alone)
+	src, err := Analyse(context.Background(), withCases)
+	if err != nil {
+		t.Fatal(err)
+	}
+	cases, err := CasesResults(src.Analysis)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var casesText bytes.Buffer
+	WriteCasesText(&casesText, "model.json", cases, units.SI)
+
+	for _, c := range []struct {
+		name, text, heading, says string
+	}{
+		{"solve", solveText, "  support  kind", "Reactions: none, the member has no supports: the ground carries every load (its resultant: Foundations, below)"},
+		{"cases", casesText.String(), "  support  x", "Reaction envelope: none, the member has no supports: the ground carries every load (its resultant: Ground envelope, below)"},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			if strings.Contains(c.text, c.heading) {
+				t.Errorf("the text prints the reactions' headings %q with no support under them:\n%s", c.heading, c.text)
+			}
+			if !strings.Contains(c.text, c.says) {
+				t.Errorf("the text does not say %q:\n%s", c.says, c.text)
+			}
+		})
+	}
+}

@@ -523,6 +523,10 @@ func WriteTrainsText(w io.Writer, src Source) {
 	}
 }
 
+// noSupports is what the text says in place of the reactions of a member
+// that no support holds.
+const noSupports = "the member has no supports: the ground carries every load"
+
 // WriteResultsText writes what WriteSolveText writes between its title and
 // the caution: the results, the checks and the warnings. src's analysis
 // must have a solution.
@@ -551,8 +555,14 @@ func WriteResultsText(w io.Writer, src Source) {
 		return u.Format(k, fe)
 	}
 
-	fmt.Fprintln(tw, "\nReactions (forces of the supports on the member; +x along the member, up positive, moments counter-clockwise)")
-	fmt.Fprintln(tw, columns("  support\tkind\tx\tcomponent"))
+	if len(sum.Reactions) == 0 {
+		// Only a foundation holds a member without supports: a model with
+		// neither is a mechanism and is not solved.
+		fmt.Fprintln(tw, "\nReactions: none, "+noSupports+" (its resultant: Foundations, below)")
+	} else {
+		fmt.Fprintln(tw, "\nReactions (forces of the supports on the member; +x along the member, up positive, moments counter-clockwise)")
+		fmt.Fprintln(tw, columns("  support\tkind\tx\tcomponent"))
+	}
 	for _, r := range sum.Reactions {
 		lead := fmt.Sprintf("  %d\t%s\t%s", r.Support, r.Kind, pos(r.X))
 		for _, c := range []struct {

@@ -450,3 +450,84 @@ func materialFindings(t *testing.T, m fem.Model) []Finding {
 	}
 	return out
 }
+
+// A displacement or rotation far beyond what small-displacement theory
+// covers draws a caution of its own, naming the value, where, and which
+// combination; a member that moves within it draws none. The thresholds,
+// a tenth of the member's length and 0.1 rad, are common practice.
+func TestLargeDisplacementFinding(t *testing.T) {
+	scaleLoads := func(m *fem.Model, by float64) {
+		for i := range m.PointLoads {
+			m.PointLoads[i].Transverse *= by
+		}
+		for i := range m.DistributedLoad {
+			for j := range m.DistributedLoad[i].Points {
+				m.DistributedLoad[i].Points[j].Intensity *= by
+			}
+		}
+	}
+	for _, c := range []struct {
+		name  string
+		model string
+		edit  func(m *fem.Model)
+		show  Show
+		says  []string // nil: no finding
+	}{
+		// Cantilever, L = 4 m, P = 10 kN: tip deflection PL³/(3EI) =
+		// 0.1333 m = L/30, tip rotation PL²/(2EI) = 0.05 rad (Gere &
+		// Goodno, Appendix D, from memory): within both.
+		{"cantilever as shipped", "cantilever_tip_load.json", func(*fem.Model) {}, Show{}, nil},
+		// ×1.9: 0.2533 m = L/15.8 and 0.095 rad, still within both.
+		{"cantilever just within", "cantilever_tip_load.json", func(m *fem.Model) { scaleLoads(m, 1.9) }, Show{}, nil},
+		// E in kPa typed as Pa (÷1000): a tip deflection of 133.3 m on a
+		// 4 m member, far beyond a tenth of it.
+		{"cantilever in wrong units", "cantilever_tip_load.json", func(m *fem.Model) { m.Segments[0].Material.Elastic /= 1000 }, Show{},
+			[]string{"largest deflection is -133.3 m at x = 4.000 m", "a tenth of the member's length (0.4000 m)", "small-displacement", "units"}},
+		// Simple beam, L = 4 m: end rotation wL³/(24EI) = 0.01667 rad
+		// and mid-span deflection 5wL⁴/(384EI) = 0.02083 m (Gere &
+		// Goodno, Appendix D, from memory); ×9 turns the ends 0.15 rad
+		// while the deflection, 0.1875 m = L/21, stays within a tenth.
+		{"simple beam turned beyond 0.1 rad", "simply_supported_uniform.json", func(m *fem.Model) { scaleLoads(m, 9) }, Show{},
+			[]string{"largest rotation is -0.1500 rad at x = 0 m", "0.1 rad", "small-displacement"}},
+		// Two spans, every case's E ÷ 1e4: the combination "both" sags
+		// 73 m on an 8 m member (0.00732 m × 1e4, as shipped).
+		{"two spans in wrong units", "two_span_cases.json", func(m *fem.Model) {
+			for i := range m.Segments {
+				m.Segments[i].Material.Elastic /= 1e4
+			}
+		}, Show{Kind: ShowEnvelope}, []string{"largest deflection is", `in combination "`, "a tenth of the member's length (0.8000 m)"}},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			m := load(t, c.model)
+			c.edit(&m)
+			a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions(), Show: c.show})
+			if err != nil || a.Solution == nil {
+				t.Fatalf("analysis: %v, %v", err, a.Err)
+			}
+			var found []Finding
+			for _, f := range a.Findings() {
+				if f.Code == CodeLargeDisplacement {
+					found = append(found, f)
+				}
+			}
+			if c.says == nil {
+				if len(found) > 0 {
+					t.Errorf("a member within small-displacement theory draws %+v", found)
+				}
+				return
+			}
+			if len(found) != 1 {
+				t.Fatalf("%d large_displacement findings, want 1: %v", len(found), codes(a.Findings()))
+			}
+			f := found[0]
+			if f.Severity != Caution || f.Doubtful || !f.Located {
+				t.Errorf("finding %+v: want a located caution that leaves the results as computed", f)
+			}
+			for _, want := range c.says {
+				if !strings.Contains(f.Message, want) {
+					t.Errorf("the message lacks %q: %s", want, f.Message)
+				}
+			}
+		})
+	}
+}

@@ -17,6 +17,7 @@ const (
 	CodeDesignCaution     Code = "design_caution"
 	CodeNoExact           Code = "no_exact"
 	CodeCoarseMesh        Code = "coarse_mesh"
+	CodeLargeDisplacement Code = "large_displacement"
 	CodeFEError           Code = "fe_error"
 	CodeHandbook          Code = "handbook"
 	CodeMaterial          Code = "material"
@@ -49,6 +50,7 @@ var Codes = []CodeInfo{
 	{CodeDesignCaution, Caution, false, "a design check asks to be looked at"},
 	{CodeNoExact, Caution, false, "there is no exact solution of the model: the headline values are the finite element ones, and a peak between nodes may be missed"},
 	{CodeCoarseMesh, Caution, false, "a finite element extreme is further from the exact one than the default mesh's accuracy (0.5 % of the field's largest magnitude): the headline values are exact, the finite element ones are the mesh's approximation"},
+	{CodeLargeDisplacement, Caution, false, "the largest displacement exceeds a tenth of the member's length, or the largest rotation 0.1 rad: the small-displacement (linear) theory the results rest on does not hold there; check the model's units and magnitudes"},
 	{CodeFEError, Caution, false, "the finite element stresses differ from the exact ones by more than the error limit somewhere along the member"},
 	{CodeHandbook, Caution, false, "a value differs from the handbook's for the standard case the model matches"},
 	{CodeMaterial, Caution, false, "a material property is far from typical values: check its units"},

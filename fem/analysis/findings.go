@@ -142,6 +142,9 @@ func (a *Analysis) Findings() []Finding {
 		out = append(out, finding(CodeNoExact, "no exact solution: values are the finite element ones",
 			fmt.Sprintf("There is no exact solution of this model (%v), so every value reported is the finite element one, labelled FE, and its error is not measured: a peak between nodes may be missed. Refine the mesh and compare to be sure.", a.ExactErr)))
 	}
+	if f, ok := a.largeDisplacement(); ok {
+		out = append(out, f)
+	}
 	if f, ok := a.coarseMesh(); ok {
 		out = append(out, f)
 	}
@@ -246,6 +249,89 @@ func depthFindings(m *fem.Model) []Finding {
 		out = append(out, segmentFinding(s, fmt.Sprintf("depth of segment %d", i+1), msg))
 	}
 	return out
+}
+
+// Small-displacement (linear) theory writes equilibrium on the undeformed
+// member and takes sin θ ≈ tan θ ≈ θ and the curvature as w″. Beyond a
+// displacement of a tenth of the member's length, or a rotation of 0.1 rad
+// (about 6°), that no longer holds: common practice, not a code's value.
+// A member that moves so much under working loads is far beyond any
+// deflection limit, so such values most often come of wrong units or
+// magnitudes in the model.
+const (
+	largeDisplacementShare = 0.1 // of the member's length
+	largeRotation          = 0.1 // rad
+)
+
+// largeDisplacement is the caution that the largest displacement or
+// rotation is beyond what small-displacement theory covers
+// (largeDisplacementShare, largeRotation): of the solution shown and, with
+// load cases, of each combination, the displacement (axial or across) and
+// the rotation furthest beyond their thresholds, each named where it is
+// beyond; false when all are within, or before Finish.
+func (a *Analysis) largeDisplacement() (Finding, bool) {
+	if a.summary == nil {
+		return Finding{}, false
+	}
+	type solution struct {
+		sum   *fem.Summary
+		words string // which solution, as solutionWords gives it
+	}
+	sols := []solution{{a.summary, a.Cases.solutionWords(&a.Model)}}
+	if a.Cases != nil {
+		for k := range a.Cases.Summaries {
+			sols = append(sols, solution{&a.Cases.Summaries[k], fmt.Sprintf(" in combination %q", a.Cases.Combinations[k].Name)})
+		}
+	}
+	type beyond struct {
+		q            fem.Quantity
+		v, at, ratio float64 // the value, where, and its share of the threshold
+		words        string
+	}
+	length := a.Model.Length()
+	var move, turn beyond // the worst displacement and rotation
+	for _, s := range sols {
+		for _, e := range s.sum.Extremes {
+			worst, limit := &move, largeDisplacementShare*length
+			switch e.Quantity {
+			case fem.QAxialDisplacement, fem.QDeflection:
+			case fem.QRotation:
+				worst, limit = &turn, largeRotation
+			default:
+				continue
+			}
+			for _, p := range [2][2]float64{{e.Max, e.XMax}, {e.Min, e.XMin}} {
+				if r := math.Abs(p[0]) / limit; r > 1 && r > worst.ratio {
+					*worst = beyond{e.Quantity, p[0], p[1], r, s.words}
+				}
+			}
+		}
+	}
+	u := a.Units
+	var parts []string
+	for _, b := range []beyond{move, turn} {
+		switch {
+		case b.ratio == 0:
+		case b.q == fem.QRotation:
+			parts = append(parts, fmt.Sprintf("the largest rotation is %s at x = %s%s, more than %g rad (about 6°)",
+				u.Format(units.Rotation, b.v), u.Format(units.Position, b.at), b.words, largeRotation))
+		default:
+			parts = append(parts, fmt.Sprintf("the largest %s is %s at x = %s%s, more than a tenth of the member's length (%s)",
+				b.q.Info().Name, u.Format(units.Position, b.v), u.Format(units.Position, b.at), b.words, u.Format(units.Position, largeDisplacementShare*length)))
+		}
+	}
+	if len(parts) == 0 {
+		return Finding{}, false
+	}
+	at := move.at
+	if move.ratio == 0 {
+		at = turn.at
+	}
+	text := strings.Join(parts, "; ")
+	msg := strings.ToUpper(text[:1]) + text[1:] + ". The results rest on small-displacement (linear) theory, which holds only while the member moves little beside its length and turns little (equilibrium on the undeformed member, sin θ ≈ θ): it does not hold here, and the values are those of linear theory all the same. Such a movement most often comes of wrong units or magnitudes: check the model's units and its values (E, A, I, loads, spring stiffnesses); a member that really moves this much needs a large-displacement analysis, which Stave does not make."
+	f := finding(CodeLargeDisplacement, "displacement beyond small-displacement theory", msg)
+	f.At, f.Located = at, true
+	return f, true
 }
 
 // coarseMesh is the finding that the finite element extremes are further
