@@ -73,7 +73,10 @@ func EulerLoad(flexuralRigidity, factor, length float64) float64 {
 }
 
 // endConditionAt combines the supports at x into one end condition.
-func endConditionAt(m *fem.Model, x float64) EndCondition {
+func endConditionAt(m *fem.Model, x float64) EndCondition { return restraintsAt(m, x).condition() }
+
+// restraintsAt counts the restraints of the supports at x.
+func restraintsAt(m *fem.Model, x float64) restraints {
 	tol := 1e-9 * m.Length()
 	var r restraints
 	for _, s := range m.Supports {
@@ -82,7 +85,7 @@ func endConditionAt(m *fem.Model, x float64) EndCondition {
 		}
 		r.add(s, 1)
 	}
-	return r.condition()
+	return r
 }
 
 // endConditions is endConditionAt(m, s.X) for every support s, in the
@@ -136,11 +139,21 @@ func (r *restraints) add(s fem.Support, n int) {
 }
 
 func (r restraints) condition() EndCondition {
+	if r.spring > 0 && !(r.deflection > 0 && r.rotation > 0) {
+		return Elastic
+	}
+	return r.rigid()
+}
+
+// rigid is the end condition of the rigid restraints alone, springs left
+// out. A spring only stiffens a column (its strain energy adds to the
+// Rayleigh quotient of the buckling load: Timoshenko & Gere, Theory of
+// Elastic Stability, 2nd ed., ch. 2, energy method, from memory), so the
+// column without it buckles no later: its factor is a conservative one.
+func (r restraints) rigid() EndCondition {
 	switch {
 	case r.deflection > 0 && r.rotation > 0:
 		return Fixed
-	case r.spring > 0:
-		return Elastic
 	case r.deflection > 0:
 		return Pinned
 	case r.rotation > 0:
@@ -159,11 +172,14 @@ type column struct {
 
 // columns splits the member into the stretches to check. Without supports
 // inside the member, the whole member is one column with its end
-// conditions. With supports inside, each span between supports is taken as
-// pinned–pinned (K = 1), conservative because continuity and end fixity only
-// shorten the buckling length; overhangs are not recognised, nor a column
-// with a hinge inside, which lengthens the buckling length beyond what
-// its ends give.
+// conditions, a spring at an end left out (restraints.rigid). With supports
+// inside, each span between supports is taken as pinned–pinned (K = 1),
+// conservative because continuity and end fixity only shorten the buckling
+// length, and an overhang from a support that holds rotation rigidly as
+// fixed–free, a cantilever whatever holds the member beyond that support;
+// springs along a span or an overhang are left out, which is conservative
+// too. Other overhangs are not recognised, nor a column with a hinge
+// inside, which lengthens the buckling length beyond what its ends give.
 func columns(m *fem.Model) []column {
 	L := m.Length()
 	tol := 1e-9 * L
@@ -178,29 +194,47 @@ func columns(m *fem.Model) []column {
 	}
 	const hingeNote = "a hinge inside it frees the member to turn there, which makes its buckling length longer than its ends give"
 	if !inside {
-		a, b := endConditionAt(m, 0), endConditionAt(m, L)
+		ra, rb := restraintsAt(m, 0), restraintsAt(m, L)
+		a, b := ra.condition(), rb.condition()
+		note := fmt.Sprintf("ends %s and %s", a, b)
+		if a == Elastic || b == Elastic {
+			a, b = ra.rigid(), rb.rigid()
+			note += fmt.Sprintf(", taken as %s and %s: %s", a, b, springNote)
+		}
 		k, ok := LookUpEffectiveLength(a, b)
-		c := column{a: 0, b: L, factor: k, known: ok, note: fmt.Sprintf("ends %s and %s", a, b)}
+		c := column{a: 0, b: L, factor: k, known: ok, note: note}
 		if hinged(0, L) {
 			c.known, c.note = false, c.note+"; "+hingeNote
 		}
 		return []column{c}
 	}
 	pinned, _ := LookUpEffectiveLength(Pinned, Pinned)
+	cantilever, _ := LookUpEffectiveLength(Fixed, Free)
 	var out []column
 	for _, st := range stretches(m, false) {
-		c := column{a: st.a, b: st.b, factor: pinned, known: !st.overhangs,
+		c := column{a: st.a, b: st.b, factor: pinned, known: true,
 			note: "a span between supports, taken as pinned at both ends (conservative: continuity over the supports only helps)"}
+		support := st.a // where an overhang is held
+		if !st.support[0] {
+			support = st.b
+		}
 		switch {
-		case st.overhangs:
-			c.note = "an overhang beyond a support, whose rotation is not held: not a standard case"
+		case hinged(st.a, st.b) && st.overhangs:
+			c.known, c.note = false, "an overhang beyond a support; "+hingeNote
 		case hinged(st.a, st.b):
 			c.known, c.note = false, "a span between supports; "+hingeNote
+		case st.overhangs && restraintsAt(m, support).rigid() == Fixed:
+			c.factor, c.note = cantilever, "an overhang from a support that holds it fixed, taken as fixed there and free at its end whatever holds the member beyond the support (any spring along it is left out: "+springNote+")"
+		case st.overhangs:
+			c.known, c.note = false, "an overhang beyond a support that does not hold its rotation rigidly: not a standard case"
 		}
 		out = append(out, c)
 	}
 	return out
 }
+
+// springNote says why a column's springs are left out.
+const springNote = "a spring only stiffens a column, so leaving it out is conservative"
 
 // Columns are the stretches of m checked for buckling, from and to (m),
 // each the Span of its check.

@@ -625,3 +625,56 @@ func TestLimitFigures(t *testing.T) {
 		}
 	}
 }
+
+// A spring (across the member or in rotation) only stiffens a column: its
+// strain energy adds to the numerator of the Rayleigh quotient of the
+// buckling load, so the column without it buckles first (Timoshenko & Gere,
+// Theory of Elastic Stability, 2nd ed., ch. 2, energy method, from
+// memory). Leaving the springs out gives a conservative check with the
+// factor of the rigid restraints alone (AISC Specification Commentary,
+// Table C-A-7.1, recommended design values, from memory): a column fixed
+// at its foot with a spring across it higher up is at least a fixed–free
+// column (K = 2.1), a pinned end with a rotational spring at least pinned
+// (K = 1). A column fixed at a support and free beyond it is a cantilever
+// whatever holds the member on the support's other side, so an overhang
+// from a fixed support is fixed–free too.
+func TestBucklingLeavesSpringsOutConservatively(t *testing.T) {
+	const L, P = 4.0, 10e3
+	ei := 200e9 * 0.1 * 0.008 / 12
+	cases := []struct {
+		name     string
+		supports []fem.Support
+		span     [2]float64
+		factor   float64 // design K of the rigid restraints alone
+	}{
+		{"fixed foot, spring across higher up", []fem.Support{{X: 0, Kind: fem.Fixed},
+			{X: L / 2, Kind: fem.Spring, Stiffness: [3]float64{0, 1e5, 0}}}, [2]float64{0, L}, 2.1},
+		{"fixed foot, spring across at the top", []fem.Support{{X: 0, Kind: fem.Fixed},
+			{X: L, Kind: fem.Spring, Stiffness: [3]float64{0, 1e5, 0}}}, [2]float64{0, L}, 2.1},
+		{"pinned foot with a rotational spring, roller at the top", []fem.Support{{X: 0, Kind: fem.Pinned, Stiffness: [3]float64{0, 0, 1e6}},
+			{X: L, Kind: fem.Roller}}, [2]float64{0, L}, 1.0},
+		{"overhang from a fixed support", []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L / 2, Kind: fem.Fixed}},
+			[2]float64{L / 2, L}, 2.1},
+	}
+	for _, c := range cases {
+		m := beam(L, c.supports, 0)
+		m.PointLoads = []fem.PointLoad{{X: L, Axial: -P}}
+		s, e := solveBoth(t, &m)
+		var r *Result
+		results := Run(&m, s, e, Options{})
+		for i := range results {
+			if results[i].Code == CodeBuckling && results[i].Span == c.span {
+				r = &results[i]
+			}
+		}
+		if r == nil {
+			t.Errorf("%s: no buckling check of %v in %v", c.name, c.span, names(results))
+			continue
+		}
+		length := c.span[1] - c.span[0]
+		want := math.Pi * math.Pi * ei / (c.factor * length * c.factor * length)
+		if r.Status != Pass || !near(r.Limit, want, 1e-12) || !near(r.Value, P, 1e-9) {
+			t.Errorf("%s: %v, Pcr %g, N %g; want pass, %g and %g: %s", c.name, r.Status, r.Limit, r.Value, want, P, r.Message)
+		}
+	}
+}
