@@ -678,3 +678,34 @@ func TestBucklingLeavesSpringsOutConservatively(t *testing.T) {
 		}
 	}
 }
+
+// A safety factor divides the allowable stress; one below 1 raises the
+// limit above the allowable entered, which is no margin at all and is most
+// often a resistance factor φ (0.9, say: AISC Specification §B3.1, from
+// memory) typed where Stave divides, so the check asks to be looked at.
+// Simply supported, 4 m, P = −20 kN at midspan: σ = PL/4·c/I = 30 MPa
+// (Roark's Table 8.1 case 1e, from memory).
+func TestSafetyFactorBelowOneAsksToBeLookedAt(t *testing.T) {
+	m := beam(4, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}}, 30e6)
+	m.PointLoads = []fem.PointLoad{{X: 2, Transverse: -20e3}}
+	s, e := solveBoth(t, &m)
+	cases := []struct {
+		allowable, factor float64 // Pa, –
+		status            Status
+	}{
+		{30e6, 0.9, Warn},  // 30 MPa against 33.3 MPa
+		{30e6, 1, Pass},    // 30 MPa against 30 MPa: utilisation 1 passes
+		{30e6, 0.5, Warn},  // 30 MPa against 60 MPa
+		{15e6, 0.75, Fail}, // 30 MPa against 20 MPa fails whatever the factor
+	}
+	for _, c := range cases {
+		m.Segments[0].Material.Allowable = c.allowable
+		r := find(t, Run(&m, s, e, Options{SafetyFactor: c.factor}), "Stress, segment 1")
+		if r.Status != c.status || !near(r.Limit, c.allowable/c.factor, 1e-12) {
+			t.Errorf("safety factor %g: %v, limit %g; want %v, %g", c.factor, r.Status, r.Limit, c.status, c.allowable/c.factor)
+		}
+		if below := strings.Contains(r.Message, "below 1"); below != (c.factor < 1) {
+			t.Errorf("safety factor %g: message says below 1: %v: %s", c.factor, below, r.Message)
+		}
+	}
+}
