@@ -709,3 +709,33 @@ func TestSafetyFactorBelowOneAsksToBeLookedAt(t *testing.T) {
 		}
 	}
 }
+
+// The stresses are first-order, taken on the straight member; compression
+// amplifies the bending moment of a beam-column by about 1/(1 − P/Pe)
+// (Timoshenko & Gere, Theory of Elastic Stability, 2nd ed., ch. 1,
+// beam-columns, from memory), so a stress check of a compressed segment
+// must say it leaves that out, and one in tension must not. Simply
+// supported, 6 m, q = −10 kN/m and an end load of ∓200 kN: σ = N/A + M·c/I
+// = 10 + 67.5 MPa with M = qL²/8 (Roark's Table 8.1 case 2e, from memory).
+func TestStressOfACompressedSegmentSaysItIsFirstOrder(t *testing.T) {
+	for _, c := range []struct {
+		axial      float64
+		firstOrder bool
+		want       float64 // |N|/A + M·c/I, Pa
+	}{
+		{-200e3, true, 10e6 + 45e3*0.1/(0.1*0.008/12)},
+		{200e3, false, 10e6 + 45e3*0.1/(0.1*0.008/12)},
+	} {
+		m := beam(6, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 6, Kind: fem.Roller}}, 250e6)
+		m.DistributedLoad = []fem.DistributedLoad{uniform(-10e3, 0, 6)}
+		m.PointLoads = []fem.PointLoad{{X: 6, Axial: c.axial}}
+		s, e := solveBoth(t, &m)
+		r := find(t, Run(&m, s, e, Options{}), "Stress, segment 1")
+		if !near(r.Value, c.want, 1e-9) {
+			t.Errorf("axial %g: stress %g, want %g", c.axial, r.Value, c.want)
+		}
+		if got := strings.Contains(r.Message, "first-order"); got != c.firstOrder {
+			t.Errorf("axial %g: says first-order: %v, want %v: %s", c.axial, got, c.firstOrder, r.Message)
+		}
+	}
+}
