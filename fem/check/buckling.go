@@ -73,7 +73,10 @@ func EulerLoad(flexuralRigidity, factor, length float64) float64 {
 }
 
 // endConditionAt combines the supports at x into one end condition.
-func endConditionAt(m *fem.Model, x float64) EndCondition {
+func endConditionAt(m *fem.Model, x float64) EndCondition { return restraintsAt(m, x).condition() }
+
+// restraintsAt counts the restraints of the supports at x.
+func restraintsAt(m *fem.Model, x float64) restraints {
 	tol := 1e-9 * m.Length()
 	var r restraints
 	for _, s := range m.Supports {
@@ -82,7 +85,7 @@ func endConditionAt(m *fem.Model, x float64) EndCondition {
 		}
 		r.add(s, 1)
 	}
-	return r.condition()
+	return r
 }
 
 // endConditions is endConditionAt(m, s.X) for every support s, in the
@@ -136,11 +139,21 @@ func (r *restraints) add(s fem.Support, n int) {
 }
 
 func (r restraints) condition() EndCondition {
+	if r.spring > 0 && !(r.deflection > 0 && r.rotation > 0) {
+		return Elastic
+	}
+	return r.rigid()
+}
+
+// rigid is the end condition of the rigid restraints alone, springs left
+// out. A spring only stiffens a column (its strain energy adds to the
+// Rayleigh quotient of the buckling load: Timoshenko & Gere, Theory of
+// Elastic Stability, 2nd ed., ch. 2, energy method, from memory), so the
+// column without it buckles no later: its factor is a conservative one.
+func (r restraints) rigid() EndCondition {
 	switch {
 	case r.deflection > 0 && r.rotation > 0:
 		return Fixed
-	case r.spring > 0:
-		return Elastic
 	case r.deflection > 0:
 		return Pinned
 	case r.rotation > 0:
@@ -155,15 +168,22 @@ type column struct {
 	factor EffectiveLength
 	known  bool
 	note   string // how the factor was found
+	// cantilever says the column is fixed at fixedAt (a or b) and free
+	// at its other end, the case cantileverMultiplier solves.
+	cantilever bool
+	fixedAt    float64
 }
 
 // columns splits the member into the stretches to check. Without supports
 // inside the member, the whole member is one column with its end
-// conditions. With supports inside, each span between supports is taken as
-// pinned–pinned (K = 1), conservative because continuity and end fixity only
-// shorten the buckling length; overhangs are not recognised, nor a column
-// with a hinge inside, which lengthens the buckling length beyond what
-// its ends give.
+// conditions, a spring at an end left out (restraints.rigid). With supports
+// inside, each span between supports is taken as pinned–pinned (K = 1),
+// conservative because continuity and end fixity only shorten the buckling
+// length, and an overhang from a support that holds rotation rigidly as
+// fixed–free, a cantilever whatever holds the member beyond that support;
+// springs along a span or an overhang are left out, which is conservative
+// too. Other overhangs are not recognised, nor a column with a hinge
+// inside, which lengthens the buckling length beyond what its ends give.
 func columns(m *fem.Model) []column {
 	L := m.Length()
 	tol := 1e-9 * L
@@ -178,29 +198,54 @@ func columns(m *fem.Model) []column {
 	}
 	const hingeNote = "a hinge inside it frees the member to turn there, which makes its buckling length longer than its ends give"
 	if !inside {
-		a, b := endConditionAt(m, 0), endConditionAt(m, L)
+		ra, rb := restraintsAt(m, 0), restraintsAt(m, L)
+		a, b := ra.condition(), rb.condition()
+		note := fmt.Sprintf("ends %s and %s", a, b)
+		if a == Elastic || b == Elastic {
+			a, b = ra.rigid(), rb.rigid()
+			note += fmt.Sprintf(", taken as %s and %s: %s", a, b, springNote)
+		}
 		k, ok := LookUpEffectiveLength(a, b)
-		c := column{a: 0, b: L, factor: k, known: ok, note: fmt.Sprintf("ends %s and %s", a, b)}
+		c := column{a: 0, b: L, factor: k, known: ok, note: note}
+		if a == Fixed && b == Free || a == Free && b == Fixed {
+			c.cantilever = true
+			if b == Fixed {
+				c.fixedAt = L
+			}
+		}
 		if hinged(0, L) {
 			c.known, c.note = false, c.note+"; "+hingeNote
 		}
 		return []column{c}
 	}
 	pinned, _ := LookUpEffectiveLength(Pinned, Pinned)
+	cantilever, _ := LookUpEffectiveLength(Fixed, Free)
 	var out []column
 	for _, st := range stretches(m, false) {
-		c := column{a: st.a, b: st.b, factor: pinned, known: !st.overhangs,
+		c := column{a: st.a, b: st.b, factor: pinned, known: true,
 			note: "a span between supports, taken as pinned at both ends (conservative: continuity over the supports only helps)"}
+		support := st.a // where an overhang is held
+		if !st.support[0] {
+			support = st.b
+		}
 		switch {
-		case st.overhangs:
-			c.note = "an overhang beyond a support, whose rotation is not held: not a standard case"
+		case hinged(st.a, st.b) && st.overhangs:
+			c.known, c.note = false, "an overhang beyond a support; "+hingeNote
 		case hinged(st.a, st.b):
 			c.known, c.note = false, "a span between supports; "+hingeNote
+		case st.overhangs && restraintsAt(m, support).rigid() == Fixed:
+			c.cantilever, c.fixedAt = true, support
+			c.factor, c.note = cantilever, "an overhang from a support that holds it fixed, taken as fixed there and free at its end whatever holds the member beyond the support (any spring along it is left out: "+springNote+")"
+		case st.overhangs:
+			c.known, c.note = false, "an overhang beyond a support that does not hold its rotation rigidly: not a standard case"
 		}
 		out = append(out, c)
 	}
 	return out
 }
+
+// springNote says why a column's springs are left out.
+const springNote = "a spring only stiffens a column, so leaving it out is conservative"
 
 // Columns are the stretches of m checked for buckling, from and to (m),
 // each the Span of its check.
@@ -237,6 +282,16 @@ func bucklingChecks(p *Probe, o Options) []Result {
 		length := c.b - c.a
 		r.Limit = ShearReduced(EulerLoad(rigidity, c.factor.Design, length), shear)
 		theoretical := ShearReduced(EulerLoad(rigidity, c.factor.Theoretical, length), shear)
+		varies := compression-h.least[k] > 1e-6*compression
+		multiplier, solved := 0.0, false
+		if c.cantilever && varies && math.IsInf(shear, 1) {
+			multiplier, solved = cantileverMultiplier(p.model, p.headlineField(), c, EulerLoad(rigidity, c.factor.Theoretical, length)/compression)
+		}
+		if solved {
+			theoretical = multiplier * compression
+			ratio := c.factor.Theoretical / c.factor.Design
+			r.Limit = theoretical * ratio * ratio
+		}
 		utilisation := compression / r.Limit
 		r.Status = Pass
 		if utilisation > 1 {
@@ -244,7 +299,11 @@ func bucklingChecks(p *Probe, o Options) []Result {
 		}
 		figures := LimitFigures(o.Units, units.Force, compression, r.Limit)
 		critical := "the Euler load π²EI/(KL)² = " + o.Units.FormatFigures(units.Force, r.Limit, figures)
-		if !math.IsInf(shear, 1) {
+		switch {
+		case solved:
+			critical = fmt.Sprintf("the critical compression %s of this column under the compression as it varies along it (%s), times (%.3g/%.3g)² for the design factor",
+				o.Units.FormatFigures(units.Force, r.Limit, figures), cantileverSource, c.factor.Theoretical, c.factor.Design)
+		case !math.IsInf(shear, 1):
 			critical = fmt.Sprintf("the critical load Pe/(1 + Pe/(G·As)) = %s of a column that deforms in shear (Pe = π²EI/(KL)² = %s, G·As = %s; %s)",
 				o.Units.FormatFigures(units.Force, r.Limit, figures), o.Units.Format(units.Force, EulerLoad(rigidity, c.factor.Design, length)), o.Units.Format(units.Force, shear), engesserSource)
 		}
@@ -252,20 +311,134 @@ func bucklingChecks(p *Probe, o Options) []Result {
 			UtilisationText(utilisation), o.Units.FormatFigures(units.Force, compression, figures), o.Units.Format(units.Position, where), p.fromWhat(), critical,
 			c.factor.Design, c.factor.Theoretical, o.Units.Format(units.Force, theoretical), c.note, c.factor.Source,
 			p.feBeside(o, units.Force, compression, p.fe.compression[k]))
-		if compression-h.least[k] > 1e-6*compression {
+		switch {
+		case solved:
+			r.Message += fmt.Sprintf("The compression varies along this part (self-weight or loads along it): the column buckles when it is %.4g times what it is, with %s of compression at x = %s. ",
+				multiplier, o.Units.Format(units.Force, theoretical), o.Units.Format(units.Position, where))
+		case varies:
 			r.Message += "The compression varies along this part (self-weight or loads along it): the largest is taken as acting all along, which is conservative. "
 		}
-		if stepped {
+		if stepped && !solved {
 			r.Message += "The section changes along this part: the smallest EI (and G·As) is used, which is conservative. "
 		}
 		bound := "The Euler load"
-		if !math.IsInf(shear, 1) {
+		if solved || !math.IsInf(shear, 1) {
 			bound = "The critical load"
 		}
 		r.Message += bound + " is an upper bound for a perfectly straight elastic column bent in the member's plane; real columns fail below it (initial crookedness, yielding), which design codes allow for with column curves. Buckling out of the plane, about the weak axis, or lateral-torsional buckling is not checked."
 		out = append(out, r)
 	}
 	return out
+}
+
+// cantileverSource is where the critical load of a column fixed at one
+// end and free at the other under a compression that varies comes from.
+const cantileverSource = "the smallest λ for which (EI·θ')' + λ·N·θ = 0 holds with θ = 0 at the fixed end and θ' = 0 at the free one, θ the slope; under its own weight alone Greenhill's (qL)cr = 7.837·EI/L², Timoshenko & Gere, Theory of Elastic Stability, 2nd ed., §2.10 (from memory)"
+
+// cantileverSteps is the number of Runge–Kutta steps along a column.
+const cantileverSteps = 512
+
+// cantileverMultiplier returns the factor λ by which the compression N
+// along column c, fixed at c.fixedAt and free at its other end, as field f
+// gives it, is multiplied at buckling: the smallest λ for which
+// (EI·θ')' + λ·N·θ = 0 has a solution θ ≠ 0 with θ = 0 at the fixed end
+// and EI·θ' = 0 at the free one (θ the slope; the free end takes no force
+// across the member, so the column's equation (EI·w”)” + (N·w')' = 0
+// integrates once: Timoshenko & Gere, Theory of Elastic Stability, 2nd ed.,
+// §2.10, from memory). It takes classical Runge–Kutta steps from the fixed
+// end between the model's key points, where N and EI are smooth, and
+// brackets λ from lowest, a lower bound (the largest compression all along
+// on the smallest EI), then bisects. False when no λ is found.
+func cantileverMultiplier(m *fem.Model, f fem.Field, c column, lowest float64) (float64, bool) {
+	type step struct{ h, ei, n0, n1, n2 float64 } // length, EI, compression at start, middle, end
+	length := c.b - c.a
+	tol := 1e-9 * m.Length()
+	xs := []float64{c.a, c.b}
+	for _, x := range fem.KeyPoints(m) {
+		if x > c.a+tol && x < c.b-tol {
+			xs = append(xs, x)
+		}
+	}
+	slices.Sort(xs)
+	xs = slices.Compact(xs)
+	var steps []step
+	for i := 1; i < len(xs); i++ {
+		x0, x1 := xs[i-1], xs[i]
+		seg := m.Segments[m.SegmentAt((x0+x1)/2)]
+		ei := seg.Material.Elastic * seg.Section.SecondMoment
+		n := max(4, int(math.Ceil(cantileverSteps*(x1-x0)/length)))
+		h := (x1 - x0) / float64(n)
+		compression := func(x float64, side fem.Side) float64 { return -f.At(x, side).AxialForce }
+		for j := range n {
+			start, end := x0+float64(j)*h, x0+float64(j+1)*h
+			if j == n-1 {
+				end = x1
+			}
+			steps = append(steps, step{h, ei, compression(start, fem.Right), compression((start+end)/2, fem.Right), compression(end, fem.Left)})
+		}
+	}
+	if c.fixedAt == c.b { // walk from the fixed end
+		slices.Reverse(steps)
+		for i := range steps {
+			steps[i].n0, steps[i].n2 = steps[i].n2, steps[i].n0
+		}
+	}
+	// bent says whether EI·θ', 1 at the fixed end with θ = 0 there, falls
+	// to zero anywhere along the column under λ·N. Where N ≥ 0 it does so
+	// first at the free end, at the first λ, and beyond it for every larger
+	// λ (Sturm's comparison theorem: its zeros move towards the fixed end
+	// as λ grows), so the first λ is where bent turns true; a stretch in
+	// tension can only make bent turn true earlier, which is conservative.
+	bent := func(lambda float64) bool {
+		theta, mu := 0.0, 1.0
+		for _, s := range steps {
+			d := func(theta, mu, n float64) (float64, float64) { return mu / s.ei, -lambda * n * theta }
+			t1, m1 := d(theta, mu, s.n0)
+			t2, m2 := d(theta+s.h/2*t1, mu+s.h/2*m1, s.n1)
+			t3, m3 := d(theta+s.h/2*t2, mu+s.h/2*m2, s.n1)
+			t4, m4 := d(theta+s.h*t3, mu+s.h*m3, s.n2)
+			theta += s.h / 6 * (t1 + 2*t2 + 2*t3 + t4)
+			mu += s.h / 6 * (m1 + 2*m2 + 2*m3 + m4)
+			if mu <= 0 {
+				return true
+			}
+		}
+		return false
+	}
+	if !(lowest > 0) || math.IsInf(lowest, 0) {
+		return 0, false
+	}
+	lo, hi := lowest, lowest
+	if bent(lo) {
+		return lo, true // the bound itself, to round-off
+	}
+	for i := 0; !bent(hi); i++ {
+		if i == 200 {
+			return 0, false
+		}
+		lo, hi = hi, 2*hi
+	}
+	for range 100 {
+		mid := (lo + hi) / 2
+		if mid <= lo || mid >= hi {
+			break
+		}
+		if bent(mid) {
+			hi = mid
+		} else {
+			lo = mid
+		}
+	}
+	return lo, true
+}
+
+// headlineField is the solution the design checks judge: the exact one
+// when there is one.
+func (p *Probe) headlineField() fem.Field {
+	if p.exact != nil {
+		return p.exact
+	}
+	return p.solution
 }
 
 // engesserSource is where the critical load of a column that deforms in

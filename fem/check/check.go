@@ -5,7 +5,9 @@
 //     allowable stress divided by a safety factor;
 //   - deflection per span between transverse supports against span/n;
 //   - Euler buckling of the parts in compression, with the effective length
-//     factor recognised from the supports;
+//     factor recognised from the supports (springs left out, which is
+//     conservative), and a column fixed at one end and free at the other
+//     under a compression that varies solved for that compression;
 //   - equilibrium: applied loads against reactions;
 //   - the finite element error against the exact solution;
 //   - a handbook cross-check when the model is a standard case (Handbook).

@@ -625,3 +625,186 @@ func TestLimitFigures(t *testing.T) {
 		}
 	}
 }
+
+// A spring (across the member or in rotation) only stiffens a column: its
+// strain energy adds to the numerator of the Rayleigh quotient of the
+// buckling load, so the column without it buckles first (Timoshenko & Gere,
+// Theory of Elastic Stability, 2nd ed., ch. 2, energy method, from
+// memory). Leaving the springs out gives a conservative check with the
+// factor of the rigid restraints alone (AISC Specification Commentary,
+// Table C-A-7.1, recommended design values, from memory): a column fixed
+// at its foot with a spring across it higher up is at least a fixed–free
+// column (K = 2.1), a pinned end with a rotational spring at least pinned
+// (K = 1). A column fixed at a support and free beyond it is a cantilever
+// whatever holds the member on the support's other side, so an overhang
+// from a fixed support is fixed–free too.
+func TestBucklingLeavesSpringsOutConservatively(t *testing.T) {
+	const L, P = 4.0, 10e3
+	ei := 200e9 * 0.1 * 0.008 / 12
+	cases := []struct {
+		name     string
+		supports []fem.Support
+		span     [2]float64
+		factor   float64 // design K of the rigid restraints alone
+	}{
+		{"fixed foot, spring across higher up", []fem.Support{{X: 0, Kind: fem.Fixed},
+			{X: L / 2, Kind: fem.Spring, Stiffness: [3]float64{0, 1e5, 0}}}, [2]float64{0, L}, 2.1},
+		{"fixed foot, spring across at the top", []fem.Support{{X: 0, Kind: fem.Fixed},
+			{X: L, Kind: fem.Spring, Stiffness: [3]float64{0, 1e5, 0}}}, [2]float64{0, L}, 2.1},
+		{"pinned foot with a rotational spring, roller at the top", []fem.Support{{X: 0, Kind: fem.Pinned, Stiffness: [3]float64{0, 0, 1e6}},
+			{X: L, Kind: fem.Roller}}, [2]float64{0, L}, 1.0},
+		{"overhang from a fixed support", []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L / 2, Kind: fem.Fixed}},
+			[2]float64{L / 2, L}, 2.1},
+	}
+	for _, c := range cases {
+		m := beam(L, c.supports, 0)
+		m.PointLoads = []fem.PointLoad{{X: L, Axial: -P}}
+		s, e := solveBoth(t, &m)
+		var r *Result
+		results := Run(&m, s, e, Options{})
+		for i := range results {
+			if results[i].Code == CodeBuckling && results[i].Span == c.span {
+				r = &results[i]
+			}
+		}
+		if r == nil {
+			t.Errorf("%s: no buckling check of %v in %v", c.name, c.span, names(results))
+			continue
+		}
+		length := c.span[1] - c.span[0]
+		want := math.Pi * math.Pi * ei / (c.factor * length * c.factor * length)
+		if r.Status != Pass || !near(r.Limit, want, 1e-12) || !near(r.Value, P, 1e-9) {
+			t.Errorf("%s: %v, Pcr %g, N %g; want pass, %g and %g: %s", c.name, r.Status, r.Limit, r.Value, want, P, r.Message)
+		}
+	}
+}
+
+// A safety factor divides the allowable stress; one below 1 raises the
+// limit above the allowable entered, which is no margin at all and is most
+// often a resistance factor φ (0.9, say: AISC Specification §B3.1, from
+// memory) typed where Stave divides, so the check asks to be looked at.
+// Simply supported, 4 m, P = −20 kN at midspan: σ = PL/4·c/I = 30 MPa
+// (Roark's Table 8.1 case 1e, from memory).
+func TestSafetyFactorBelowOneAsksToBeLookedAt(t *testing.T) {
+	m := beam(4, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}}, 30e6)
+	m.PointLoads = []fem.PointLoad{{X: 2, Transverse: -20e3}}
+	s, e := solveBoth(t, &m)
+	cases := []struct {
+		allowable, factor float64 // Pa, –
+		status            Status
+	}{
+		{30e6, 0.9, Warn},  // 30 MPa against 33.3 MPa
+		{30e6, 1, Pass},    // 30 MPa against 30 MPa: utilisation 1 passes
+		{30e6, 0.5, Warn},  // 30 MPa against 60 MPa
+		{15e6, 0.75, Fail}, // 30 MPa against 20 MPa fails whatever the factor
+	}
+	for _, c := range cases {
+		m.Segments[0].Material.Allowable = c.allowable
+		r := find(t, Run(&m, s, e, Options{SafetyFactor: c.factor}), "Stress, segment 1")
+		if r.Status != c.status || !near(r.Limit, c.allowable/c.factor, 1e-12) {
+			t.Errorf("safety factor %g: %v, limit %g; want %v, %g", c.factor, r.Status, r.Limit, c.status, c.allowable/c.factor)
+		}
+		if below := strings.Contains(r.Message, "below 1"); below != (c.factor < 1) {
+			t.Errorf("safety factor %g: message says below 1: %v: %s", c.factor, below, r.Message)
+		}
+	}
+}
+
+// The stresses are first-order, taken on the straight member; compression
+// amplifies the bending moment of a beam-column by about 1/(1 − P/Pe)
+// (Timoshenko & Gere, Theory of Elastic Stability, 2nd ed., ch. 1,
+// beam-columns, from memory), so a stress check of a compressed segment
+// must say it leaves that out, and one in tension must not. Simply
+// supported, 6 m, q = −10 kN/m and an end load of ∓200 kN: σ = N/A + M·c/I
+// = 10 + 67.5 MPa with M = qL²/8 (Roark's Table 8.1 case 2e, from memory).
+func TestStressOfACompressedSegmentSaysItIsFirstOrder(t *testing.T) {
+	for _, c := range []struct {
+		axial      float64
+		firstOrder bool
+		want       float64 // |N|/A + M·c/I, Pa
+	}{
+		{-200e3, true, 10e6 + 45e3*0.1/(0.1*0.008/12)},
+		{200e3, false, 10e6 + 45e3*0.1/(0.1*0.008/12)},
+	} {
+		m := beam(6, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 6, Kind: fem.Roller}}, 250e6)
+		m.DistributedLoad = []fem.DistributedLoad{uniform(-10e3, 0, 6)}
+		m.PointLoads = []fem.PointLoad{{X: 6, Axial: c.axial}}
+		s, e := solveBoth(t, &m)
+		r := find(t, Run(&m, s, e, Options{}), "Stress, segment 1")
+		if !near(r.Value, c.want, 1e-9) {
+			t.Errorf("axial %g: stress %g, want %g", c.axial, r.Value, c.want)
+		}
+		if got := strings.Contains(r.Message, "first-order"); got != c.firstOrder {
+			t.Errorf("axial %g: says first-order: %v, want %v: %s", c.axial, got, c.firstOrder, r.Message)
+		}
+	}
+}
+
+// A column fixed at one end and free at the other whose compression varies
+// along it buckles when the compression as it is, multiplied by a factor,
+// satisfies (EI·θ')' + N·θ = 0 with θ = 0 at the fixed end and θ' = 0 at
+// the free one (θ the slope; the free end takes no force across, so the
+// column's equation integrates once). Under its own weight alone the
+// whole weight buckles it at Greenhill's (qL)cr = 7.837·EI/L²
+// (Timoshenko & Gere, Theory of Elastic Stability, 2nd ed., §2.10,
+// buckling of a bar under distributed axial load, from memory); with an end
+// load and a weight that is nearly nothing, at π²EI/(2L)² (Euler). The
+// check takes the design factor K = 2.1 for the theoretical 2 (AISC
+// Specification Commentary, Table C-A-7.1 case (d), from memory), so its
+// limit is the critical compression at the foot times (2/2.1)². The column
+// may stand on its foot at either end of the member, and it may be an
+// overhang from a fixed support.
+func TestBucklingOfAColumnUnderItsOwnWeight(t *testing.T) {
+	const L, g = 3.0, 9.80665
+	ei := 200e9 * 0.1 * 0.008 / 12
+	weight := 7850 * g * 0.02 * L // ρgAL, N
+	design := (2 / 2.1) * (2 / 2.1)
+	cases := []struct {
+		name     string
+		supports []fem.Support
+		gravity  float64 // along x, m/s²
+		load     fem.PointLoad
+		length   float64 // of the member
+		span     [2]float64
+		critical float64 // compression at the foot at buckling, N
+		relative float64
+	}{
+		{"own weight, foot at x = 0", []fem.Support{{X: 0, Kind: fem.Fixed}}, -g, fem.PointLoad{}, L,
+			[2]float64{0, L}, 7.837 * ei / (L * L), 1e-4},
+		{"own weight, foot at x = L", []fem.Support{{X: L, Kind: fem.Fixed}}, g, fem.PointLoad{}, L,
+			[2]float64{0, L}, 7.837 * ei / (L * L), 1e-4},
+		{"overhang above a fixed support", []fem.Support{{X: 0, Kind: fem.Roller}, {X: 2, Kind: fem.Fixed}}, -g, fem.PointLoad{}, 2 + L,
+			[2]float64{2, 2 + L}, 7.837 * ei / (L * L), 1e-4},
+		// (P + 0.3·qL)cr = π²EI/(2L)² (Timoshenko & Gere, §2.10, from
+		// memory): with qL = 46 N beside P = 1000 kN the foot's critical
+		// compression is 3e-5 above Euler's.
+		{"end load, a weight of nearly nothing", []fem.Support{{X: 0, Kind: fem.Fixed}}, -g * 1e-2, fem.PointLoad{X: L, Axial: -1e6}, L,
+			[2]float64{0, L}, math.Pi * math.Pi * ei / (4 * L * L), 1e-4},
+	}
+	for _, c := range cases {
+		m := beam(c.length, c.supports, 0)
+		m.Gravity = [2]float64{c.gravity, 0}
+		if c.load.Axial != 0 {
+			m.PointLoads = []fem.PointLoad{c.load}
+		}
+		s, e := solveBoth(t, &m)
+		var r *Result
+		results := Run(&m, s, e, Options{})
+		for i := range results {
+			if results[i].Code == CodeBuckling && results[i].Span == c.span {
+				r = &results[i]
+			}
+		}
+		if r == nil {
+			t.Errorf("%s: no buckling check of %v in %v", c.name, c.span, names(results))
+			continue
+		}
+		foot := -c.load.Axial + weight*math.Abs(c.gravity)/g
+		if !near(r.Value, foot, 1e-9) || !near(r.Limit, c.critical*design, c.relative) {
+			t.Errorf("%s: compression %g, limit %g; want %g and %g (%.6f of it)", c.name, r.Value, r.Limit, foot, c.critical*design, r.Limit/(c.critical*design))
+		}
+		if r.Status != Pass || !strings.Contains(r.Message, "as it varies") {
+			t.Errorf("%s: %v: %s", c.name, r.Status, r.Message)
+		}
+	}
+}

@@ -15,6 +15,7 @@ import (
 func stressChecks(p *Probe, o Options) []Result {
 	var out []Result
 	h := p.headline()
+	amplified := firstOrder(p, h, o)
 	for i, seg := range p.model.Segments {
 		r := Result{Name: fmt.Sprintf("Stress, segment %d", i+1), Code: CodeStress, Unit: "Pa", Span: [2]float64{seg.Start, seg.End}}
 		where := h.stress[i].x
@@ -45,12 +46,48 @@ func stressChecks(p *Probe, o Options) []Result {
 		if r.Status == Fail {
 			r.Message += "Above 1 the member is overstressed: a larger section, a stronger material, or less load is needed. "
 		}
+		if o.SafetyFactor < 1 {
+			// Most often a resistance factor φ, which multiplies a strength,
+			// typed where this check divides.
+			if r.Status == Pass {
+				r.Status = Warn
+			}
+			r.Message += fmt.Sprintf("A safety factor below 1 raises the limit above the allowable stress entered, which leaves less than no margin: if %.3g is a resistance factor φ that multiplies the strength, enter 1/φ = %.3g instead. ",
+				o.SafetyFactor, 1/o.SafetyFactor)
+		}
 		if o.SafetyFactor == 1 {
 			r.Message += "With a safety factor of 1 there is no margin in this check: the value entered must already be an allowable (design) stress, not a yield or characteristic strength. "
 		}
 		r.Message += "The stress is compared by magnitude, tension and compression alike: materials weak in tension, such as concrete, need their own check. "
+		r.Message += amplified[i]
 		r.Message += "This is elastic stress only: local buckling, lateral-torsional buckling, shear, connections and fatigue are not checked."
 		out = append(out, r)
+	}
+	return out
+}
+
+// firstOrder writes, per segment, the sentence that says its stresses
+// leave out the amplification of its bending by compression, when a
+// column it lies in is compressed ("" otherwise). Segments and columns
+// both run along the member, so one pass over each finds them.
+func firstOrder(p *Probe, h *peaks, o Options) []string {
+	out := make([]string, len(p.model.Segments))
+	if len(p.columns) == 0 {
+		return out
+	}
+	roundOff, next := AxialRoundOff(p.model), 0
+	for i, seg := range p.model.Segments {
+		for next < len(p.columns) && p.columns[next].b <= seg.Start {
+			next++
+		}
+		compression := 0.0
+		for k := next; k < len(p.columns) && p.columns[k].a < seg.End; k++ {
+			compression = max(compression, h.compression[k].value)
+		}
+		if compression > roundOff {
+			out[i] = fmt.Sprintf("The part of the member this segment lies in carries up to %s of compression, and these stresses are first-order, worked out on the straight member: compression amplifies the bending moments, by about 1/(1 − N/Pcr) with Pcr the critical load of the buckling check (Timoshenko & Gere, Theory of Elastic Stability, ch. 1, beam-columns; from memory), which is not included. ",
+				o.Units.Format(units.Force, compression))
+		}
 	}
 	return out
 }

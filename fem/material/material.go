@@ -38,7 +38,7 @@ func Typical() []Entry {
 			Material: fem.Material{Name: "Structural steel S355 (typical)", Elastic: 210e9, Density: 7850, ThermalExpansion: 12e-6, Allowable: 355e6},
 			Kind:     "steel",
 			Strength: "yield strength fy for thickness up to 40 mm; not an allowable stress",
-			Source:   "EN 1993-1-1 §3.2.6 (E, α) and Table 3.1 (fy); EN 1991-1-1 Table A.4 (78.5 kN/m³); from memory",
+			Source:   "EN 1993-1-1 §3.2.6 (E, α, ρ = 7850 kg/m³) and Table 3.1 (fy); from memory",
 		},
 		{
 			Material: fem.Material{Name: "Structural steel ASTM A992 (typical)", Elastic: 29000 * ksi, Density: 490 * lbft3, ThermalExpansion: 6.5e-6 * perF, Allowable: 50 * ksi},
@@ -62,7 +62,7 @@ func Typical() []Entry {
 			Material: fem.Material{Name: "Normal-weight concrete C30/37 (typical)", Elastic: 33e9, Density: 2400, ThermalExpansion: 10e-6, Allowable: 30e6},
 			Kind:     "concrete",
 			Strength: "characteristic cylinder compressive strength fck; concrete cracks in tension at about a tenth of this",
-			Source:   "EN 1992-1-1 Table 3.1 (Ecm, fck) and §3.1.3 (α); EN 1991-1-1 Table A.1 (24 kN/m³ plain); from memory",
+			Source:   "EN 1992-1-1 Table 3.1 (Ecm, fck) and §3.1.3 (α); density common practice for plain concrete (EN 1991-1-1 Table A.1 gives a unit weight of 24 kN/m³, about 2450 kg/m³); from memory",
 		},
 	}
 }

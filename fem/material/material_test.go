@@ -46,7 +46,7 @@ func TestSteelEntriesAgreeAcrossCodes(t *testing.T) {
 	}{
 		// AISC Specification prints E = 29,000 ksi (200 000 MPa), from memory.
 		{"E of A992 in SI", us.Elastic, 200e9, 0.001},
-		// 490 lb/ft³ against EN 1991-1-1's 7850 kg/m³.
+		// 490 lb/ft³ against EN 1993-1-1's 7850 kg/m³.
 		{"density", us.Density, eu.Density, 0.001},
 		// 6.5e-6 per °F = 11.7e-6 per K, against EN 1993-1-1's 12e-6 per K.
 		{"thermal expansion", us.ThermalExpansion, 11.7e-6, 1e-12},
