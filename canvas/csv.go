@@ -75,6 +75,17 @@ func DefaultCSVPoints(elements int) int {
 	return max(1, min(csvDefaultPoints, csvRows/max(elements, 1)-1))
 }
 
+// RowsError is the refusal of a table that samples inside its elements
+// and would have more than CSVMaxRows rows: PerElement intervals in each of
+// Elements elements. The number of intervals is the caller's choice, so a
+// command line reports it as misuse of its flag.
+type RowsError struct{ Elements, PerElement int }
+
+func (e *RowsError) Error() string {
+	return fmt.Sprintf("canvas: the table would have %d rows (%d elements at %d points each), more than the %d a table sampled inside its elements holds: ask for at most %s per element",
+		e.Elements*(e.PerElement+1), e.Elements, e.PerElement+1, CSVMaxRows, units.Count(max(1, CSVMaxRows/e.Elements-1), "interval"))
+}
+
 // WriteCSV writes x and every result quantity, finite element and (when e is
 // not nil) exact, at perElement+1 points in each element, both ends included,
 // in the display units of u (SI when u is the zero System), after a preamble
@@ -96,8 +107,7 @@ func WriteCSV(w io.Writer, s *fem.Solution, e *fem.Exact, u units.System, perEle
 		return fmt.Errorf("canvas: %d points per element: use from 1 to %d", perElement, CSVMaxPoints)
 	}
 	if elements := len(s.Mesh.Elements); perElement > 1 && elements*(perElement+1) > CSVMaxRows {
-		return fmt.Errorf("canvas: the table would have %d rows (%d elements at %d points each), more than the %d a table sampled inside its elements holds: ask for at most %s per element",
-			elements*(perElement+1), elements, perElement+1, CSVMaxRows, units.Count(max(1, CSVMaxRows/elements-1), "interval"))
+		return &RowsError{Elements: elements, PerElement: perElement}
 	}
 	if u.Name == "" {
 		u = units.SI

@@ -87,6 +87,11 @@ func exportCommand(args []string, stdout io.Writer) error {
 		// The size and density each lie in their ranges, but not together.
 		return usageError{fmt.Sprintf("--width, --height, --dpi: %s", strings.TrimPrefix(size.Error(), "canvas: "))}
 	}
+	var rows *canvas.RowsError
+	if errors.As(err, &rows) {
+		// Only --points asks for more than the default's rows.
+		return usageError{fmt.Sprintf("--points %d: %s", *points, strings.TrimPrefix(rows.Error(), "canvas: "))}
+	}
 	if err != nil {
 		return modelError{fmt.Errorf("%s: %w", path, err)}
 	}

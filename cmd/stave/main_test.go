@@ -324,6 +324,27 @@ func TestExportRefusesDensitiesTooLargeForTheDrawing(t *testing.T) {
 	}
 }
 
+// A --points the mesh cannot be tabulated at, past canvas.CSVMaxRows rows
+// (3000 elements at 1001 points each is 3,003,000 rows; at most
+// 2,000,000/3000 − 1 = 665 intervals fit), is misuse of the flag, as a
+// density too large for the drawing is: exit 2, naming the flag and the
+// most that fits, and no file. It was refused as a model (exit 1).
+func TestExportRefusesPointsTooManyForTheMesh(t *testing.T) {
+	out := filepath.Join(t.TempDir(), "x.csv")
+	code, _, stderr := runStave(t, "export", "../../testdata/simply_supported_uniform.json", "--out", out, "--elements", "3000", "--points", "1000")
+	if code != 2 {
+		t.Errorf("exit %d, want 2; stderr %s", code, stderr)
+	}
+	for _, phrase := range []string{"--points 1000", "3003000 rows", "at most 665 intervals per element"} {
+		if !strings.Contains(stderr, phrase) {
+			t.Errorf("stderr lacks %q: %s", phrase, stderr)
+		}
+	}
+	if _, err := os.Stat(out); err == nil {
+		t.Errorf("%s was written", out)
+	}
+}
+
 // --points sets the rows per element of the table and --units its unit
 // system, which the preamble states; the file is written whole or not at
 // all.
