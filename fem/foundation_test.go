@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"strings"
+	"sync"
 	"testing"
 )
 
@@ -983,19 +984,7 @@ func TestDefaultMeshOnSkinFrictionKeepsTheBeam(t *testing.T) {
 // kept a range, an end or a closed form's samples from the stretch before
 // would show here. (EachInterval's own contract; no check value of its own.)
 func TestEachIntervalIsAFreshInterval(t *testing.T) {
-	const L, k = 12.0, 6.4e6
-	m := groundModel(L, k)
-	m.Foundations[0].Start, m.Foundations[0].End = L/3, 2*L/3
-	m.Supports = append(m.Supports, Support{X: 0, Kind: Pinned}, Support{X: L, Kind: Roller})
-	m.PointLoads = []PointLoad{{X: 1, Transverse: -30e3}, {X: 5, Transverse: -80e3, Axial: 10e3}, {X: 6.5, Moment: 12e3}, {X: 10, Transverse: 20e3}}
-	m.DistributedLoad = []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{X: 2, Intensity: -5e3}, {X: 11, Intensity: -9e3}}}}
-	e, err := SolveExact(m)
-	if err != nil {
-		t.Fatal(err)
-	}
-	if len(e.stretches) < 6 {
-		t.Fatalf("%d stretches: the model should give a dozen, polynomials and closed forms", len(e.stretches))
-	}
+	e := foundedMiddleThird(t)
 	closed, n := 0, 0
 	for j, got := range e.EachInterval() {
 		if j != n {
@@ -1026,5 +1015,68 @@ func TestEachIntervalIsAFreshInterval(t *testing.T) {
 	}
 	if closed == 0 || closed == n {
 		t.Errorf("%d of %d stretches in closed form: the test needs both kinds", closed, n)
+	}
+}
+
+// foundedMiddleThird is the exact solution of a 12 m beam, simply
+// supported, founded along its middle third only and loaded all along:
+// its stretches alternate between polynomials (off the bed) and closed
+// forms (on it).
+func foundedMiddleThird(t *testing.T) *Exact {
+	t.Helper()
+	const L, k = 12.0, 6.4e6
+	m := groundModel(L, k)
+	m.Foundations[0].Start, m.Foundations[0].End = L/3, 2*L/3
+	m.Supports = append(m.Supports, Support{X: 0, Kind: Pinned}, Support{X: L, Kind: Roller})
+	m.PointLoads = []PointLoad{{X: 1, Transverse: -30e3}, {X: 5, Transverse: -80e3, Axial: 10e3}, {X: 6.5, Moment: 12e3}, {X: 10, Transverse: 20e3}}
+	m.DistributedLoad = []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{X: 2, Intensity: -5e3}, {X: 11, Intensity: -9e3}}}}
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(e.stretches) < 6 {
+		t.Fatalf("%d stretches: the model should give a dozen, polynomials and closed forms", len(e.stretches))
+	}
+	return e
+}
+
+// The stretches' ranges are worked out once and kept with the exact
+// solution (Exact.stretchRanges), which the window's drawing, its
+// analysis and the halves of a walk read at once: two goroutines that
+// first ask EachInterval of one exact solution together must each get
+// every range a fresh Interval of the stretch gives, to the bit. Under
+// go test -race, a cache filled without synchronisation fails here.
+// (EachInterval's own contract; no check value of its own.)
+func TestEachIntervalFromTwoGoroutines(t *testing.T) {
+	e := foundedMiddleThird(t)
+	want := make([][quantityCount][2]Point, len(e.stretches))
+	for j := range e.stretches {
+		var w Interval
+		st := &e.stretches[j]
+		st.interval(0, 1, st.start, st.end, &w)
+		for q := range Quantity(quantityCount) {
+			want[j][q][0], want[j][q][1] = w.Range(q)
+		}
+	}
+	var wg sync.WaitGroup
+	wrong := make([]int, 2)
+	for g := range wrong {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for j, v := range e.EachInterval() {
+				for q := range Quantity(quantityCount) {
+					if lo, hi := v.Range(q); lo != want[j][q][0] || hi != want[j][q][1] {
+						wrong[g]++
+					}
+				}
+			}
+		}()
+	}
+	wg.Wait()
+	for g, n := range wrong {
+		if n > 0 {
+			t.Errorf("goroutine %d: %d ranges differ from a fresh Interval's", g+1, n)
+		}
 	}
 }

@@ -115,8 +115,12 @@ var (
 func (m *Model) Validate() error { return m.ValidateIn(units.Base) }
 
 // ValidateIn is Validate with the messages quoting values in the display
-// units of u, those a window shows and its user types.
+// units of u, those a window shows and its user types; units of no name
+// (the zero System) are SI base units, as Validate's.
 func (m *Model) ValidateIn(u units.System) error {
+	if u.Name == "" {
+		u = units.Base
+	}
 	v := validator{u: u}
 	if m == nil {
 		v.add(Place{Item: modelItem}, "there is no model")

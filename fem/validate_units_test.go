@@ -30,6 +30,10 @@ func TestValidateInDisplayUnits(t *testing.T) {
 			"support 2 at x = 3.2 m lies outside the member (length 3.0 m)"},
 		{"support past the end", func(m *Model) { m.Supports[1].X = 3.2 }, units.SI,
 			"support 2 at x = 3.2 m lies outside the member (length 3.0 m)"},
+		// The zero System, units of no name, is SI base units, as Validate
+		// quotes them (elsewhere an unnamed system is SI too).
+		{"support past the end", func(m *Model) { m.Supports[1].X = 3.2 }, units.System{},
+			"support 2 at x = 3.2 m lies outside the member (length 3.0 m)"},
 		{"negative area", func(m *Model) { m.Segments[0].Section.Area = -2 * in * in }, units.USCustomary,
 			"segment 1: the area A is -2.0 in²: it must be positive"},
 		{"negative area", func(m *Model) { m.Segments[0].Section.Area = -2e-6 }, units.SI,

@@ -419,11 +419,8 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 			count int
 			what  string
 		}{{c.PointLoads, "point load"}, {c.DistributedLoads, "distributed load"}} {
-			switch {
-			case n.count == 1:
-				marks = append(marks, "1 "+n.what)
-			case n.count > 1:
-				marks = append(marks, fmt.Sprintf("%d %ss", n.count, n.what))
+			if n.count > 0 {
+				marks = append(marks, units.Count(n.count, n.what))
 			}
 		}
 		if c.SelfWeight {

@@ -151,9 +151,9 @@ func TestSolveJSONNodalLoadsNotWorkedOutOnAFineMesh(t *testing.T) {
 	}
 }
 
-// A model with load cases has no nodal_loads: its loads are its cases',
-// which the model's own nodal loads (fem.Solution.NodalLoads) leave out, so
-// the key listed none (two spans under −10 kN/m in every case, testdata).
+// A model with load cases has no nodal_loads: it has a set of loads per
+// case and combination, not one for the document (two spans under
+// −10 kN/m in every case, testdata).
 func TestSolveJSONNodalLoadsOfCases(t *testing.T) {
 	for _, show := range []string{"envelope", "both spans"} {
 		_, out, stderr := runStave(t, "solve", "--json", "--show", show, "../../testdata/two_span_cases.json")

@@ -68,11 +68,12 @@ func stressChecks(p *Probe, o Options) []Result {
 
 // firstOrder writes, per segment, the sentence that says its stresses
 // leave out the amplification of its bending by compression, when a
-// column it lies in is compressed ("" otherwise). Segments and columns
-// both run along the member, so one pass over each finds them.
+// column it lies in is compressed ("" otherwise): not of a member solved
+// for axial force alone, which has no bending to amplify. Segments and
+// columns both run along the member, so one pass over each finds them.
 func firstOrder(p *Probe, h *peaks, o Options) []string {
 	out := make([]string, len(p.model.Segments))
-	if len(p.columns) == 0 {
+	if len(p.columns) == 0 || p.solution.AxialOnly {
 		return out
 	}
 	roundOff, next := AxialRoundOff(p.model), 0

@@ -265,8 +265,12 @@ func (t *Train) OwnProblems(u units.System) []Problem {
 	return out
 }
 
-// quote prints v, an SI value of kind k, in u's unit: "3.2 m", "10.5 ft".
+// quote prints v, an SI value of kind k, in u's unit: "3.2 m", "10.5 ft";
+// units of no name (the zero System) are SI base units.
 func quote(u units.System, k units.Kind, v float64) string {
+	if u.Name == "" {
+		u = units.Base
+	}
 	return trim(u.ToDisplay(k, v)) + " " + u.Unit(k).Symbol
 }
 

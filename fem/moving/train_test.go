@@ -265,6 +265,14 @@ func TestTrainProblems(t *testing.T) {
 	if ps := ok.Problems(10, units.Base); len(ps) != 0 {
 		t.Errorf("a sound train has problems: %+v", ps)
 	}
+	// Units of no name (the zero System) are SI base units, as Validate
+	// and the files' messages quote them, not "+Inf " of no unit.
+	long := ok
+	long.Axles = slices.Clone(ok.Axles)
+	long.Axles[1].Spacing = 12
+	if got, want := long.Problems(10, units.System{}), long.Problems(10, units.Base); !slices.Equal(got, want) {
+		t.Errorf("problems in units of no name %+v, in SI base units %+v", got, want)
+	}
 	most := Train{Axles: []Axle{{Load: 1e3}}}
 	for len(most.Axles) < MaxAxles {
 		most.Axles = append(most.Axles, Axle{Load: 1e3, Spacing: 1e-3})
