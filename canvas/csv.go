@@ -69,7 +69,7 @@ const (
 )
 
 // DefaultCSVPoints is the number of intervals each of elements elements is
-// sampled in by default: 4, fewer from 20,000 elements on so that a table
+// sampled in by default: 4, fewer above 20,000 elements so that a table
 // keeps to about 100,000 rows, and at least 1.
 func DefaultCSVPoints(elements int) int {
 	return max(1, min(csvDefaultPoints, csvRows/max(elements, 1)-1))

@@ -27,7 +27,7 @@ func exportCommand(args []string, stdout io.Writer) error {
 	dpi := fs.Float64("dpi", 0, "pixel density of PNG output, 1 to 20,000, with the drawing at most 20,000 pixels a side (default 96)")
 	width := fs.Float64("width", 0, "drawing width in points, 1 to 20,000 (default 1200)")
 	height := fs.Float64("height", 0, "drawing height in points, 1 to 20,000 (default 800)")
-	points := fs.Int("points", 0, "CSV only: sample each element at N+1 evenly spaced points, both ends included (default 4; fewer from 20,000 elements on); a table sampled inside its elements (N above 1) holds at most 2,000,000 rows")
+	points := fs.Int("points", 0, "CSV only: sample each element at N+1 evenly spaced points, both ends included (default 4; fewer above 20,000 elements); a table sampled inside its elements (N above 1) holds at most 2,000,000 rows")
 	system := fs.String("units", "", "unit system of the output: SI or US (default: the file's display units)")
 	show := fs.String("show", "", "a model with load cases: draw one case or combination by NAME, or the envelope (the default)")
 	path, err := parseOneFile(fs, args, stdout)
