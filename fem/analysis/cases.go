@@ -666,7 +666,15 @@ func (c *Cases) solutionWords(m *fem.Model) string {
 		}
 		return fmt.Sprintf(" in load case %q", m.LoadSetName(c.Show.Index))
 	}
-	if k >= len(c.Combinations) {
+	return c.combinationWords(m, k)
+}
+
+// combinationWords name combination k as words to follow a statement
+// about its solution: ` in combination "strength" with every span loaded`
+// (of the cases it places by span), ` in combination "SLS"`; "" for no
+// combination of c.
+func (c *Cases) combinationWords(m *fem.Model, k int) string {
+	if k < 0 || k >= len(c.Combinations) {
 		return ""
 	}
 	cb := &c.Combinations[k]
@@ -758,4 +766,12 @@ func (c *Cases) CaseSummary(k int) (fem.Summary, error) {
 		return fem.Summarize(s, nil), nil
 	}
 	return fem.Summarize(s, exacts[k]), nil
+}
+
+// finiteElementEnvelope reports whether c shows an envelope whose values
+// are the finite element ones (fem.Envelope.Exact false: a member on an
+// elastic foundation) and has every combination's summary to weigh them
+// by; false for a nil c.
+func (c *Cases) finiteElementEnvelope() bool {
+	return c != nil && c.Show.Kind == ShowEnvelope && c.Envelope != nil && !c.Envelope.Exact && len(c.Summaries) == len(c.Combinations)
 }
