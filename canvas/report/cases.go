@@ -74,13 +74,28 @@ type EnvelopeJSON struct {
 	// Solution is whose values the quantities' envelope holds: "exact", or
 	// "finite element" where the exact solution is no polynomial (a member
 	// on an elastic foundation).
-	Solution   string               `json:"solution"`
-	Spans      [][2]float64         `json:"spans"` // m, in order; loaded spans count from 1
-	Quantities []QuantityEnvelope   `json:"quantities"`
-	Reactions  []ReactionEnvelopeJS `json:"reactions"`
+	Solution string `json:"solution"`
+	// Accuracy says how far to trust a finite element envelope: the
+	// largest accuracy of the combinations' finite element extremes against
+	// their exact ones; nil for an exact envelope, or without an exact
+	// solution to measure it by.
+	Accuracy   *EnvelopeAccuracyJSON `json:"accuracy"`
+	Spans      [][2]float64          `json:"spans"` // m, in order; loaded spans count from 1
+	Quantities []QuantityEnvelope    `json:"quantities"`
+	Reactions  []ReactionEnvelopeJS  `json:"reactions"`
 	// Foundations are what each foundation carries, at its largest and
 	// smallest; empty without foundations.
 	Foundations []FoundationEnvelopeJS `json:"foundations"`
+}
+
+// EnvelopeAccuracyJSON is the largest accuracy (fem.Extreme.Accuracy, a
+// share of the field's largest magnitude) of every combination's finite
+// element extremes, with its field and its combination.
+type EnvelopeAccuracyJSON struct {
+	Ratio       float64 `json:"ratio"`
+	Quantity    string  `json:"quantity"` // as in the extremes, e.g. shear_force
+	Combination string  `json:"combination"`
+	quantity    fem.Quantity
 }
 
 // QuantityEnvelope is one quantity's largest and smallest value.
@@ -179,7 +194,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 		out.Combinations = append(out.Combinations, cj)
 	}
 	env := c.Envelope
-	out.Envelope = EnvelopeJSON{Caution: CombinedCaution, Solution: envelopeSolution(env), Spans: c.Solutions.Loads.Spans}
+	out.Envelope = EnvelopeJSON{Caution: CombinedCaution, Solution: envelopeSolution(env), Accuracy: envelopeAccuracy(c), Spans: c.Solutions.Loads.Spans}
 	for _, q := range env.Quantities {
 		out.Envelope.Quantities = append(out.Envelope.Quantities, QuantityEnvelope{Quantity: q.Quantity, Name: q.Quantity.Key(), Unit: q.Quantity.Info().SI,
 			Max: governingJSON(m, c.Combinations, q.Max), Min: governingJSON(m, c.Combinations, q.Min)})
@@ -453,6 +468,10 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 	}
 	tw.Flush()
 	fmt.Fprintf(tw, "\nEnvelope over every combination%s (%s solution)\n", spanWords(r.Envelope.Spans), r.Envelope.Solution)
+	if a := r.Envelope.Accuracy; a != nil {
+		fmt.Fprintf(tw, "  Its values are the finite element ones on this mesh: the combinations' FE extremes are within %.3g %% of a field's largest magnitude of their exact ones (worst: %s in %s).\n",
+			100*a.Ratio, a.quantity.Info().Name, a.Combination)
+	}
 	fmt.Fprintln(tw, "  quantity\tlargest\tat x\tgoverning\tsmallest\tat x\tgoverning")
 	for _, q := range r.Envelope.Quantities {
 		k := q.Quantity.Info().Unit
@@ -606,6 +625,27 @@ func sheetCaseLines(src Source) []string {
 		lines = append(lines, "Ground's resultant across the member, foundation "+strings.Join(ground, "; ")+".")
 	}
 	return lines
+}
+
+// envelopeAccuracy is how far the finite element envelope of c is from the
+// exact solutions: the worst accuracy of its combinations' extremes (each
+// with every span loaded); nil for an exact envelope, or when a
+// combination has no exact solution.
+func envelopeAccuracy(c *analysis.Cases) *EnvelopeAccuracyJSON {
+	if c.Envelope.Exact || len(c.Summaries) != len(c.Combinations) {
+		return nil
+	}
+	var out *EnvelopeAccuracyJSON
+	for k := range c.Summaries {
+		w, ok := c.Summaries[k].Worst()
+		if !ok {
+			return nil
+		}
+		if out == nil || w.Accuracy > out.Ratio {
+			out = &EnvelopeAccuracyJSON{Ratio: w.Accuracy, Quantity: w.Quantity.Key(), Combination: c.Combinations[k].Name, quantity: w.Quantity}
+		}
+	}
+	return out
 }
 
 // envelopeSolution names whose values env's quantities hold.

@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"context"
 	"encoding/json"
+	"fmt"
 	"math"
 	"strings"
 	"testing"
@@ -348,5 +349,79 @@ func TestTextOfNoSupportsPointsToTheGround(t *testing.T) {
 				t.Errorf("the text does not say %q:\n%s", c.says, c.text)
 			}
 		})
+	}
+}
+
+// The envelope of a member on a foundation holds finite element values
+// (envelope.solution "finite element"), so it must say how far to trust
+// them: envelope.accuracy is the largest mesh accuracy over the
+// combinations, with the field and the combination, and the cases text says
+// the same. Two combinations on the default mesh: a uniform load, which the
+// bed takes up without bending (solved exactly by any mesh), then a point
+// load P in the middle of a long beam, whose shear force beside the load
+// is P/2 (Hetényi, Beams on Elastic Foundation, 1946, the infinite beam,
+// from memory) and converges slowest: the envelope's largest shear force
+// misses P/2 by about the accuracy stated. mesh.accuracy_reached, of the
+// first combination alone, is round-off and says nothing of it.
+func TestFiniteElementEnvelopeSaysHowFarToTrustIt(t *testing.T) {
+	const L, P = 20.0, 1e5
+	p := groundProject(L, 1e8, 4e8, fem.MeshSettings{}) // β = 1/m
+	p.Model.Cases = []fem.LoadCase{
+		{Name: "uniform", DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -1e4}, {X: L, Intensity: -1e4}}}}},
+		{Name: "column", PointLoads: []fem.PointLoad{{X: L / 2, Transverse: -P}}},
+	}
+	type accuracy struct {
+		Ratio       float64
+		Quantity    string
+		Combination string
+	}
+	var doc struct {
+		Combinations []struct {
+			Name     string
+			Extremes []struct {
+				Quantity string
+				Accuracy float64
+			}
+		}
+		Envelope struct {
+			Solution   string
+			Accuracy   *accuracy
+			Quantities []struct {
+				Quantity string
+				Max      struct{ Value float64 }
+			}
+		}
+	}
+	src := solveInto(t, p, &doc)
+	if doc.Envelope.Solution != "finite element" {
+		t.Fatalf("envelope.solution %q: the test needs a finite element envelope", doc.Envelope.Solution)
+	}
+	var want accuracy
+	for _, c := range doc.Combinations {
+		for _, e := range c.Extremes {
+			if e.Accuracy > want.Ratio {
+				want = accuracy{e.Accuracy, e.Quantity, c.Name}
+			}
+		}
+	}
+	got := doc.Envelope.Accuracy
+	if got == nil || *got != want || want.Combination != "column" || want.Quantity != "shear_force" {
+		t.Fatalf("envelope.accuracy is %+v, want %+v (the column's shear force)", got, want)
+	}
+	for _, q := range doc.Envelope.Quantities {
+		if q.Quantity == "shear_force" {
+			if off := math.Abs(q.Max.Value-P/2) / (P / 2); off > got.Ratio*(1+1e-9) || off < got.Ratio/2 {
+				t.Errorf("the envelope's shear force %.6g N misses P/2 by %.3g %%, not within the %.3g %% stated", q.Max.Value, 100*off, 100*got.Ratio)
+			}
+		}
+	}
+	cases, err := CasesResults(src.Analysis)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var text bytes.Buffer
+	WriteCasesText(&text, "model.json", cases, units.SI)
+	if says := fmt.Sprintf("within %.3g %% of a field's largest magnitude of their exact ones (worst: shear force in column)", 100*got.Ratio); !strings.Contains(text.String(), says) {
+		t.Errorf("the cases text does not say %q:\n%s", says, text.String())
 	}
 }
