@@ -829,10 +829,7 @@ func shareTolerances(shares []*Solution) [][envelopeValues]float64 {
 // restrained) is round-off, such as the axial reaction of a member free to
 // expand, and reads as zero.
 func (cs *CombinationSolutions) reactionEnvelope() []ReactionEnvelope {
-	force := 0.0
-	for _, s := range slices.Concat(cs.Fixed, cs.Shares) {
-		force = max(force, forceFloor(s).all[0])
-	}
+	force := cs.forceSize()
 	L := cs.Fixed[0].Model.Length()
 	out := make([]ReactionEnvelope, len(cs.Fixed[0].Reactions))
 	for i, r := range cs.Fixed[0].Reactions {
@@ -843,28 +840,48 @@ func (cs *CombinationSolutions) reactionEnvelope() []ReactionEnvelope {
 			if Dof(d) == Rotation {
 				size *= L
 			}
-			for _, g := range []*Governing{&re.Min[d], &re.Max[d]} {
-				if math.Abs(g.Value) <= negligible*size {
-					g.Value = 0
-				}
-			}
+			dropRoundOff(size, &re.Min[d], &re.Max[d])
 		}
 		out[i] = re
 	}
 	return out
 }
 
+// forceSize is the size of the forces of every load set of cs
+// (forceFloor: their loads, reactions and imposed deformations fully
+// restrained), N: a resultant negligible against it is round-off.
+func (cs *CombinationSolutions) forceSize() float64 {
+	force := 0.0
+	for _, s := range slices.Concat(cs.Fixed, cs.Shares) {
+		force = max(force, forceFloor(s).all[0])
+	}
+	return force
+}
+
+// dropRoundOff sets to zero the values of gs negligible against size.
+func dropRoundOff(size float64, gs ...*Governing) {
+	for _, g := range gs {
+		if math.Abs(g.Value) <= negligible*size {
+			g.Value = 0
+		}
+	}
+}
+
 // foundationEnvelope is the envelope of what every foundation carries;
-// nil without foundations.
+// nil without foundations. A resultant negligible against the size of the
+// forces of every load set is round-off, such as the ground's force along
+// a warmed member that nothing loads along it, and reads as zero.
 func (cs *CombinationSolutions) foundationEnvelope() []FoundationEnvelope {
 	if len(cs.Fixed[0].Foundations) == 0 {
 		return nil
 	}
+	force := cs.forceSize()
 	out := make([]FoundationEnvelope, len(cs.Fixed[0].Foundations))
 	for i, r := range cs.Fixed[0].Foundations {
 		fe := FoundationEnvelope{Foundation: r.Foundation, Start: r.Start, End: r.End}
 		for d := range 2 {
 			fe.Min[d], fe.Max[d] = cs.linearEnvelope(0.5*(r.Start+r.End), func(s *Solution) float64 { return s.Foundations[i].Force[d] }, false)
+			dropRoundOff(force, &fe.Min[d], &fe.Max[d])
 		}
 		out[i] = fe
 	}

@@ -488,3 +488,40 @@ func TestEnvelopeNamesAStationaryEndAtTheEnd(t *testing.T) {
 		t.Errorf("largest rotation %.12g at x = %.17g m; want %.12g at %g m", r.Value, r.X, want, 2*L)
 	}
 }
+
+// A free bar on an elastic bed along it and across it, held along its axis
+// at mid-length, warmed and cooled: by symmetry the support takes nothing,
+// and with no load along the member the ground's forces along it add up to
+// nothing (statics), so the ground's envelope along the member is 0, not
+// the round-off of the thermal force α·ΔT·EA of some hundred kN that its
+// integral of kₐ·u cancels, which the reports printed ("5.813e-10 kN") and
+// named a combination for.
+func TestFoundationEnvelopeWithoutRoundOff(t *testing.T) {
+	const L = 12.0
+	m := &Model{
+		Segments: []Segment{{Start: 0, End: L, Section: Section{Area: 0.48, SecondMoment: 0.0256, FibreDistance: 0.4},
+			Material: Material{Elastic: 3e10, ThermalExpansion: 1e-5}}},
+		Supports:    []Support{{X: L / 2, Kind: AxialOnly}},
+		Foundations: []Foundation{{Start: 0, End: L, Modulus: 2.4e7, AxialModulus: 1e7}},
+		Cases: []LoadCase{
+			{Name: "dead", DistributedLoad: []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -5e4}, {L, -5e4}}}}},
+			{Name: "warm", TemperatureChange: 30},
+		},
+		Combinations: []Combination{
+			{Name: "A", Kind: Strength, Factors: []CaseFactor{{Case: 0, Factor: 1.35}, {Case: 1, Factor: 0.6}}},
+			{Name: "B", Kind: Strength, Factors: []CaseFactor{{Case: 0, Factor: 1}, {Case: 1, Factor: -1}}},
+		},
+	}
+	_, cs := solveCombinations(t, m)
+	env := cs.Envelope()
+	if len(env.Foundations) != 1 {
+		t.Fatalf("%d foundations in the envelope, want 1", len(env.Foundations))
+	}
+	f := env.Foundations[0]
+	if hi, lo := f.Max[0].Value, f.Min[0].Value; hi != 0 || lo != 0 {
+		t.Errorf("the ground's resultant along the member runs from %g to %g N, want 0", lo, hi)
+	}
+	if hi := f.Max[1].Value; !closeTo(hi, 1.35*5e4*L) {
+		t.Errorf("the ground's largest resultant across the member is %g N, want the loads' %g N", hi, 1.35*5e4*L)
+	}
+}
