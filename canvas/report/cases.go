@@ -98,6 +98,12 @@ type EnvelopeAccuracyJSON struct {
 	quantity    fem.Quantity
 }
 
+// Words say how far to trust a finite element envelope, in a sentence.
+func (a *EnvelopeAccuracyJSON) Words() string {
+	return fmt.Sprintf("Its values are the finite element ones on this mesh: the combinations' FE extremes are within %.3g %% of a field's largest magnitude of their exact ones (worst: %s in %s).",
+		100*a.Ratio, a.quantity.Info().Name, a.Combination)
+}
+
 // QuantityEnvelope is one quantity's largest and smallest value.
 type QuantityEnvelope struct {
 	Quantity fem.Quantity  `json:"-"`
@@ -469,8 +475,7 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 	tw.Flush()
 	fmt.Fprintf(tw, "\nEnvelope over every combination%s (%s solution)\n", spanWords(r.Envelope.Spans), r.Envelope.Solution)
 	if a := r.Envelope.Accuracy; a != nil {
-		fmt.Fprintf(tw, "  Its values are the finite element ones on this mesh: the combinations' FE extremes are within %.3g %% of a field's largest magnitude of their exact ones (worst: %s in %s).\n",
-			100*a.Ratio, a.quantity.Info().Name, a.Combination)
+		fmt.Fprintf(tw, "  %s\n", a.Words())
 	}
 	fmt.Fprintln(tw, "  quantity\tlargest\tat x\tgoverning\tsmallest\tat x\tgoverning")
 	for _, q := range r.Envelope.Quantities {
@@ -589,6 +594,9 @@ func sheetCaseLines(src Source) []string {
 	}
 	lines := []string{fmt.Sprintf("Shown: %s; the results above are those of %s. Load cases: %s. Combinations: %s. %s",
 		r.Shown, r.SummaryOf, strings.Join(names, "; "), strings.Join(combos, "; "), CombinedCaution)}
+	if a := r.Envelope.Accuracy; a != nil {
+		lines = append(lines, "The envelope is of the finite element solutions (a member on an elastic foundation). "+a.Words())
+	}
 	for _, q := range r.Envelope.Quantities {
 		switch q.Quantity {
 		case fem.QBendingMoment:

@@ -424,4 +424,7 @@ func TestFiniteElementEnvelopeSaysHowFarToTrustIt(t *testing.T) {
 	if says := fmt.Sprintf("within %.3g %% of a field's largest magnitude of their exact ones (worst: shear force in column)", 100*got.Ratio); !strings.Contains(text.String(), says) {
 		t.Errorf("the cases text does not say %q:\n%s", says, text.String())
 	}
+	if says := fmt.Sprintf("within %.3g %% of a field's largest magnitude", 100*got.Ratio); !strings.Contains(strings.Join(sheetCaseLines(src), "\n"), says) {
+		t.Errorf("the sheet's case lines do not say %q:\n%s", says, strings.Join(sheetCaseLines(src), "\n"))
+	}
 }
