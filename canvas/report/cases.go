@@ -173,8 +173,8 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 		for _, f := range cb.Factors {
 			cj.Factors = append(cj.Factors, FactorJSON{Case: m.LoadSetName(f.Case), Factor: f.Factor})
 		}
-		if k < len(c.Summaries) {
-			cj.Results = resultsOf(c.Summaries[k])
+		if k < len(c.Summaries) && c.Summaries[k] != nil {
+			cj.Results = resultsOf(*c.Summaries[k])
 		}
 		out.Combinations = append(out.Combinations, cj)
 	}

@@ -124,6 +124,15 @@ func (a *Analysis) Findings() []Finding {
 	for _, msg := range a.Solution.Warnings {
 		out = append(out, finding(CodeCondition, "solver", msg))
 	}
+	if a.Cases != nil {
+		for k, err := range a.Cases.Unsolved {
+			if err != nil {
+				name := a.Cases.Combinations[k].Name
+				out = append(out, finding(CodeNoResults, fmt.Sprintf("no results of combination %q", name),
+					fmt.Sprintf("Combination %q could not be solved: %v. It has no results, and the checks of the envelope leave it out.", name, err)))
+			}
+		}
+	}
 	for _, cb := range a.Model.Combinations {
 		for _, tf := range cb.Trains {
 			train := a.trainLabel(tf.Train)
@@ -279,8 +288,10 @@ func (a *Analysis) largeDisplacement() (Finding, bool) {
 	}
 	sols := []solution{{a.summary, a.Cases.solutionWords(&a.Model)}}
 	if a.Cases != nil {
-		for k := range a.Cases.Summaries {
-			sols = append(sols, solution{&a.Cases.Summaries[k], fmt.Sprintf(" in combination %q", a.Cases.Combinations[k].Name)})
+		for k, sum := range a.Cases.Summaries {
+			if sum != nil {
+				sols = append(sols, solution{sum, fmt.Sprintf(" in combination %q", a.Cases.Combinations[k].Name)})
+			}
 		}
 	}
 	type beyond struct {
