@@ -176,7 +176,7 @@ func solveCases(a *Analysis, r Request) {
 			// The envelope shows the first combination: name it when it
 			// cannot be solved (results that underflow, say).
 			if a.Solution, a.Err = c.Solutions.Solution(0); a.Err != nil && len(c.Combinations) > 0 {
-				a.Err = fmt.Errorf("combination %q: %w", c.Combinations[0].Name, a.Err)
+				a.Err = fmt.Errorf("%s: %w", c.combinationName(&a.Model, 0), a.Err)
 			}
 		}
 	}
@@ -682,13 +682,22 @@ func (c *Cases) solutionWords(m *fem.Model) string {
 	if k >= len(c.Combinations) {
 		return ""
 	}
-	cb := &c.Combinations[k]
-	for _, f := range cb.Factors {
+	for _, f := range c.Combinations[k].Factors {
 		if f.Case >= 0 && f.Case < len(m.Cases) && m.Cases[f.Case].BySpan {
-			return fmt.Sprintf(" in combination %q with every span loaded", cb.Name)
+			return " in " + c.combinationName(m, k) + " with every span loaded"
 		}
 	}
-	return fmt.Sprintf(" in combination %q", cb.Name)
+	return " in " + c.combinationName(m, k)
+}
+
+// combinationName names combination k of c: `combination "ULS 1"`, or
+// `load case "permanent"` for a model without combinations, whose
+// envelope takes each case alone at factor 1 (fem.Model.EnvelopeCombinations).
+func (c *Cases) combinationName(m *fem.Model, k int) string {
+	if len(m.Combinations) == 0 {
+		return fmt.Sprintf("load case %q", c.Combinations[k].Name)
+	}
+	return fmt.Sprintf("combination %q", c.Combinations[k].Name)
 }
 
 // shownCombination is the combination whose solution the analysis shows

@@ -127,9 +127,9 @@ func (a *Analysis) Findings() []Finding {
 	if a.Cases != nil {
 		for k, err := range a.Cases.Unsolved {
 			if err != nil {
-				name := a.Cases.Combinations[k].Name
-				out = append(out, finding(CodeNoResults, fmt.Sprintf("no results of combination %q", name),
-					fmt.Sprintf("Combination %q could not be solved: %v. It has no results, and the checks of the envelope leave it out.", name, err)))
+				name := a.Cases.combinationName(&a.Model, k)
+				out = append(out, finding(CodeNoResults, "no results of "+name,
+					fmt.Sprintf("The %s could not be solved: %v. It has no results, and the checks of the envelope leave it out.", name, err)))
 			}
 		}
 	}
@@ -290,7 +290,7 @@ func (a *Analysis) largeDisplacement() (Finding, bool) {
 	if a.Cases != nil {
 		for k, sum := range a.Cases.Summaries {
 			if sum != nil {
-				sols = append(sols, solution{sum, fmt.Sprintf(" in combination %q", a.Cases.Combinations[k].Name)})
+				sols = append(sols, solution{sum, " in " + a.Cases.combinationName(&a.Model, k)})
 			}
 		}
 	}
