@@ -284,6 +284,17 @@ func CombineSolutions(sols []*Solution, factors []float64) (*Solution, error) {
 	for j := range 3 {
 		out.Equilibrium.Residual[j] = out.Equilibrium.Applied[j] + out.Equilibrium.Reactions[j]
 	}
+	// The strain energy is not linear in the factors: it is found again,
+	// and results whose squares overflow (a factor of 1e300 on a case) are
+	// refused, as Solve refuses them.
+	energy := 0.0
+	for i, el := range out.Mesh.Elements {
+		energy += out.sections[el.Segment].energy(el.End-el.Start, out.fields[i])
+	}
+	out.StrainEnergy = 0.5 * energy
+	if !isFinite(out.StrainEnergy) {
+		return nil, errNotFinite
+	}
 	if err := checkUnderflow(out); err != nil {
 		return nil, err
 	}

@@ -1,6 +1,7 @@
 package fem
 
 import (
+	"errors"
 	"math"
 	"math/rand/v2"
 	"testing"
@@ -334,4 +335,72 @@ func combinedModel(m *Model, factors []float64) Model {
 		}
 	}
 	return out
+}
+
+// A combination is one load set: when its factor makes results that
+// overflow, it must be refused as Solve refuses the same loads applied at
+// once (errNotFinite), not combined into values whose squares are
+// infinite (the energy error read NaN, and `stave solve --json` failed
+// with "json: unsupported value: NaN" on two spans with 1e300 times a
+// case placed by span).
+func TestCombinationThatOverflowsIsRefused(t *testing.T) {
+	const L, w, f = 4.0, -1e4, 1e300
+	m := twoSpans(L, w)
+	scaled := twoSpans(L, w) // its own loads, which scaling leaves m's alone
+	scaled.DistributedLoad, scaled.Cases = scaled.Cases[0].DistributedLoad, nil
+	scaleLoads(scaled, f)
+	if _, err := Solve(scaled); !errors.Is(err, errNotFinite) {
+		t.Fatalf("Solve of the loads times %g: %v, want the refusal of results too large for floating point", f, err)
+	}
+	p, err := Prepare(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sols, err := p.SolveLoadSets(p.Mesh())
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := CombineSolutions(sols[:1], []float64{f}); !errors.Is(err, errNotFinite) {
+		t.Errorf("CombineSolutions of the case times %g: %v, want the same refusal", f, err)
+	}
+	// A large factor that stays finite combines.
+	if _, err := CombineSolutions(sols, []float64{1e100, 1}); err != nil {
+		t.Errorf("CombineSolutions with a factor of 1e100: %v", err)
+	}
+}
+
+// The strain energy of a combination is found again from its fields
+// (CombineSolutions): a load set alone at factor f stores f² times its own
+// (the energy is quadratic in the loads, linear elasticity, from memory),
+// on random members with hinges, springs, settlements, self-weight and
+// temperature.
+func TestCombinationStrainEnergy(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(7, 11))
+	solved := 0
+	for trial := range 20 {
+		m := randomTwoCases(rnd)
+		p, err := Prepare(&m)
+		if err != nil {
+			continue // a random model Prepare refuses is another test's business
+		}
+		solved++
+		sols, err := p.SolveLoadSets(p.Mesh())
+		if err != nil {
+			t.Fatal(err)
+		}
+		for k, s := range sols {
+			for _, f := range []float64{1, -2.5} {
+				c, err := CombineSolutions([]*Solution{s}, []float64{f})
+				if err != nil {
+					t.Fatal(err)
+				}
+				if want := f * f * s.StrainEnergy; math.Abs(c.StrainEnergy-want) > 1e-9*math.Abs(want) {
+					t.Errorf("trial %d, load set %d × %g: strain energy %g J, want %g J", trial, k, f, c.StrainEnergy, want)
+				}
+			}
+		}
+	}
+	if solved < 10 {
+		t.Fatalf("%d of 20 random members solved; the test needs 10", solved)
+	}
 }

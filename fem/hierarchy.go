@@ -385,7 +385,6 @@ func (r *stretchRefiner) finish(e int, c taylor) {
 	h := r.x[e+1] - r.x[e]
 	f := elementField{slope: c.slope, curvature: c.curvature, third: c.third}
 	strain := c.slope - r.thermalStrain
-	bar := strain * strain
 	if r.order == QuadraticBar {
 		// Break points of the loads are nodes: the load is linear here.
 		p := [2]float64{r.axialAt(r.x[e]), r.axialAt(r.x[e+1])}
@@ -395,14 +394,8 @@ func (r *stretchRefiner) finish(e int, c taylor) {
 		d := elementData{length: h, sectionData: sectionData{axialRigidity: r.axialRigidity}, axialLoad: p}
 		k, load := d.barStiffness(QuadraticBar), d.barLoads(QuadraticBar)
 		f.bubble = load[1] / k[1][1]
-		// The bubble's strain (4 − 8ξ)·bubble/h is orthogonal to the constant part.
-		bar += 16.0 / 3 * (f.bubble / h) * (f.bubble / h)
 	}
-	// ∫(w'' + w'''·s)² ds over [0, h].
-	k0 := c.curvature - r.thermalCurvature // the curvature less the free thermal one
-	bend := k0*k0 + h*c.third*(k0+h*c.third/3)
-	bend += r.shear * c.third * c.third // G·As·γ² = EI·g·θ″² with γ = −g·θ″
-	r.energy += h * (r.axialRigidity*bar + r.flexuralRigidity*bend)
+	r.energy += r.sectionData.energy(h, f)
 	r.fields[e] = f
 	d := r.disp[e]
 	// Bounds of the actions and stress in the element: non-negative, so
@@ -411,6 +404,20 @@ func (r *stretchRefiner) finish(e int, c taylor) {
 	moment := r.flexuralRigidity * (math.Abs(c.curvature) + h*math.Abs(c.third))
 	r.poison += d[Axial]*0 + d[Transverse]*0 + d[Rotation]*0 +
 		(axial+moment+r.flexuralRigidity*math.Abs(c.third)+axial/r.area+moment*r.fibre/r.secondMoment)*0
+}
+
+// energy is twice the strain energy of an element of length h with fields
+// f on this section, J (springs excluded).
+func (d *sectionData) energy(h float64, f elementField) float64 {
+	strain := f.slope - d.thermalStrain
+	// The bubble's strain (4 − 8ξ)·bubble/h is orthogonal to the constant
+	// part; the bubble is 0 but for quadratic bars.
+	bar := strain*strain + 16.0/3*(f.bubble/h)*(f.bubble/h)
+	// ∫(w'' + w'''·s)² ds over [0, h].
+	k0 := f.curvature - d.thermalCurvature // the curvature less the free thermal one
+	bend := k0*k0 + h*f.third*(k0+h*f.third/3)
+	bend += d.shear * f.third * f.third // G·As·γ² = EI·g·θ″² with γ = −g·θ″
+	return h * (d.axialRigidity*bar + d.flexuralRigidity*bend)
 }
 
 // pointsOn is the work of the point loads inside (x_lo, x_hi) on the

@@ -20,14 +20,18 @@ import "math"
 //
 // Each is divided by a measure of the exact solution, and a measure can
 // vanish: a bar held at both ends and heated does not move, a free bar
-// heated or a determinate beam whose support settles carries no stress.
-// The ratio would then be round-off over round-off, read as 100 %, or x/0.
-// So each measure has a scale that cannot vanish while anything acts on
-// the member, built from the sizes of the terms that make N and M (for
-// example E·α·ΔT beside E·u'), exact and finite element alike: for the
-// stress and the energy the same measure of those terms, for the
-// displacement the displacement those strains and curvatures add up to
-// over the member's length (its characteristic displacement). Where the
+// heated or a determinate beam whose support settles carries no stress,
+// a bar pulled at a support that holds it carries nothing. The ratio
+// would then be round-off over round-off, read as 100 %, or x/0. So each
+// measure has a scale that cannot vanish while anything acts on the
+// member: the sizes of the terms that make N and M (for example E·α·ΔT
+// beside E·u'), exact and finite element alike, and the loads' scale
+// (forceFloor: the loads, each reaction and the imposed deformations
+// fully restrained), which the terms lack where the loads go straight
+// into the supports: for the stress and the energy the same measure of
+// those terms and that force, for the displacement the displacement
+// those strains and curvatures and that force add up to over the
+// member's length (its characteristic displacement). Where the
 // exact measure is negligible against its scale (below negligible times
 // it), the error is judged against the scale instead: round-off reads 0, a
 // real error a finite ratio, never +Inf or NaN.
@@ -286,17 +290,23 @@ func (c *Comparison) Norms() ErrorNorms {
 		}
 		return fe
 	}
+	// The loads' scale (forceFloor): a stress, a displacement over the
+	// member's length (its L2 norm) and the work of that force through that
+	// displacement (the energy norm's square).
+	L := c.solution.Model.Length()
+	floor := forceFloor(c.solution)
 	return ErrorNorms{
 		MaxDeflection: m.deflection,
 		MaxAxial:      m.axial,
 		MaxStress:     m.stress,
 		MaxStressAt:   m.stressAt,
-		MaxStressRelative: relativeError(m.stress, ex.stress, ex.stressTerms,
+		MaxStressRelative: relativeError(m.stress, ex.stress, max(ex.stressTerms, floor.all[1]),
 			func() float64 { return own().stressTerms }),
 		RelativeL2: relativeError(math.Sqrt(in.dispErr), math.Sqrt(ex.disp),
-			math.Max(math.Sqrt(ex.disp), ex.dispTerms(c.solution.Model.Length())),
+			max(math.Sqrt(ex.disp), ex.dispTerms(L), floor.all[2]*math.Sqrt(L)),
 			func() float64 { return math.Sqrt(own().disp) }),
-		RelativeEnergy: relativeError(math.Sqrt(in.energyErr), math.Sqrt(ex.energy), math.Sqrt(ex.energyTerms),
+		RelativeEnergy: relativeError(math.Sqrt(in.energyErr), math.Sqrt(ex.energy),
+			max(math.Sqrt(ex.energyTerms), math.Sqrt(floor.all[0]*floor.all[2])),
 			func() float64 { return math.Sqrt(own().energyTerms) }),
 	}
 }
@@ -393,8 +403,9 @@ func combinedError(fe, ex *Interval, best float64) extremum {
 }
 
 // relativeError is err/exact, unless exact is negligible against
-// exactTerms, the same measure of the terms it sums (then it is zero to
-// round-off and the ratio means nothing). In that case the error is judged
+// exactTerms, the same measure of the terms it sums or of the loads'
+// scale, the larger (then it is zero to round-off and the ratio means
+// nothing). In that case the error is judged
 // against scale, the larger of exactTerms and feTerms (asked for only
 // then): 0 when it is at round-off level, else err/scale. See ErrorNorms.
 func relativeError(err, exact, exactTerms float64, feTerms func() float64) float64 {

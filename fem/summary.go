@@ -404,6 +404,17 @@ func forceFloor(s *Solution) floorSizes {
 	return f
 }
 
+// LoadScales are the force (N), stress (Pa) and displacement (m) that the
+// internal forces, stresses and displacements of s are at least measured
+// against (forceFloor): what the loads, each support's action and the
+// imposed deformations fully restrained make. A value below a billionth of
+// its scale is round-off, as the summary's extremes read it: where the
+// loads go straight into the supports, the member carries nothing.
+func (s *Solution) LoadScales() (force, stress, displacement float64) {
+	f := forceFloor(s)
+	return f.all[0], f.all[1], f.all[2]
+}
+
 // fieldScale is the size quantity q is measured against: its largest
 // magnitude, from largest (each quantity's largest magnitude, in SI), unless
 // that is negligible against the other fields of its kind — an axial force

@@ -194,8 +194,8 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 		for _, f := range cb.Factors {
 			cj.Factors = append(cj.Factors, FactorJSON{Case: m.LoadSetName(f.Case), Factor: f.Factor})
 		}
-		if k < len(c.Summaries) {
-			cj.Results = resultsOf(c.Summaries[k])
+		if k < len(c.Summaries) && c.Summaries[k] != nil {
+			cj.Results = resultsOf(*c.Summaries[k])
 		}
 		out.Combinations = append(out.Combinations, cj)
 	}
@@ -638,14 +638,17 @@ func sheetCaseLines(src Source) []string {
 // envelopeAccuracy is how far the finite element envelope of c is from the
 // exact solutions: the worst accuracy of its combinations' extremes (each
 // with every span loaded); nil for an exact envelope, or when a
-// combination has no exact solution.
+// combination has no exact solution or was not solved.
 func envelopeAccuracy(c *analysis.Cases) *EnvelopeAccuracyJSON {
 	if c.Envelope.Exact || len(c.Summaries) != len(c.Combinations) {
 		return nil
 	}
 	var out *EnvelopeAccuracyJSON
-	for k := range c.Summaries {
-		w, ok := c.Summaries[k].Worst()
+	for k, sum := range c.Summaries {
+		if sum == nil {
+			return nil
+		}
+		w, ok := sum.Worst()
 		if !ok {
 			return nil
 		}

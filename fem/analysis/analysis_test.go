@@ -496,6 +496,20 @@ func TestLargeDisplacementFinding(t *testing.T) {
 				m.Segments[i].Material.Elastic /= 1e4
 			}
 		}, Show{Kind: ShowEnvelope}, []string{"largest deflection is", `in combination "`, "a tenth of the member's length (0.8000 m)"}},
+		// The same without combinations: the envelope is over the load
+		// cases, each at factor 1 (docs/format.md), and the finding names
+		// a load case, not a combination the file does not have: "first
+		// span", one span loaded, sags most: 0.0092·qL⁴/EI = 73.6 m with
+		// q = 10 kN/m, L = 4 m, EI = 320 N·m² (continuous beam, two equal
+		// spans, one loaded; AISC Manual beam diagrams, from memory, the
+		// coefficient rounded), where both spans loaded hold each other
+		// back to 0.0054·qL⁴/EI.
+		{"two spans in wrong units, cases alone", "two_span_cases.json", func(m *fem.Model) {
+			m.Combinations = nil
+			for i := range m.Segments {
+				m.Segments[i].Material.Elastic /= 1e4
+			}
+		}, Show{Kind: ShowEnvelope}, []string{"largest deflection is -73.20 m", `in load case "first span"`}},
 	} {
 		t.Run(c.name, func(t *testing.T) {
 			m := load(t, c.model)
@@ -527,6 +541,9 @@ func TestLargeDisplacementFinding(t *testing.T) {
 				if !strings.Contains(f.Message, want) {
 					t.Errorf("the message lacks %q: %s", want, f.Message)
 				}
+			}
+			if len(m.Combinations) == 0 && strings.Contains(f.Message, "combination") {
+				t.Errorf("a model without combinations: the message names one: %s", f.Message)
 			}
 		})
 	}

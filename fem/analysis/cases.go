@@ -49,14 +49,19 @@ type Cases struct {
 	// closed form with the governing combinations, after Finish (the
 	// drawing samples the envelope from Solutions before).
 	Envelope *fem.Envelope
-	// Summaries are each combination's summary (every span loaded), and
-	// Governing the combination each of the analysis's Checks was taken
-	// from, after Finish.
-	Summaries []fem.Summary
+	// Summaries are each combination's summary (every span loaded), one
+	// per combination in the order of Combinations, nil where its solution
+	// failed (Unsolved says why), and Governing the combination each of
+	// the analysis's Checks was taken from, after Finish.
+	Summaries []*fem.Summary
 	Governing []int
-	member    *fem.Member
-	mesh      fem.Mesh
-	alone     *caseSolver // shared by the copies of c
+	// Unsolved is, per combination, why its solution failed (results that
+	// underflow, say); nil where it solved. Such a combination has no
+	// summary and no checks, and the envelope's checks are of the others.
+	Unsolved []error
+	member   *fem.Member
+	mesh     fem.Mesh
+	alone    *caseSolver // shared by the copies of c
 }
 
 // caseSolver solves load cases alone: the finite element ones on one
@@ -168,7 +173,11 @@ func solveCases(a *Analysis, r Request) {
 	default:
 		c.Show = Show{Kind: ShowEnvelope}
 		if c.Solutions, a.Err = p.SolveCombinations(mesh); a.Err == nil {
-			a.Solution, a.Err = c.Solutions.Solution(0)
+			// The envelope shows the first combination: name it when it
+			// cannot be solved (results that underflow, say).
+			if a.Solution, a.Err = c.Solutions.Solution(0); a.Err != nil && len(c.Combinations) > 0 {
+				a.Err = fmt.Errorf("%s: %w", c.combinationName(&a.Model, 0), a.Err)
+			}
 		}
 	}
 }
@@ -234,24 +243,26 @@ func (c *Cases) finish(a *Analysis, opts check.Options) {
 	}
 	c.Envelope = c.Solutions.Envelope()
 	per := make([][]check.Result, len(c.Combinations))
+	c.Summaries, c.Unsolved = make([]*fem.Summary, len(c.Combinations)), make([]error, len(c.Combinations))
 	for k := range c.Combinations {
 		if k == c.shownCombination() {
 			// Finish's own walk was of this combination: a.Solution and
 			// a.Exact are its, solved the same way to the bit.
-			c.Summaries = append(c.Summaries, a.Summary())
-			per[k] = a.Checks
+			sum := a.Summary()
+			c.Summaries[k], per[k] = &sum, a.Checks
 			continue
 		}
 		s, err := c.Solutions.Solution(k)
 		if err != nil {
+			c.Unsolved[k] = err
 			continue
 		}
 		e, _ := c.Solutions.Exact(k)
 		z := fem.NewSummarizer(s, e)
 		p := check.NewProbe(&a.Model, s, e)
 		fem.Walk(s, e, z, p)
-		c.Summaries = append(c.Summaries, z.Summary())
-		per[k] = p.Results(z.Comparison(), opts)
+		sum := z.Summary()
+		c.Summaries[k], per[k] = &sum, p.Results(z.Comparison(), opts)
 	}
 	if arranged, k := c.arranger(a); arranged != nil {
 		// The combination, or the case placed by span, shown alone: its
@@ -270,12 +281,14 @@ func (c *Cases) finish(a *Analysis, opts check.Options) {
 		}
 		return
 	}
-	if c.Show.Kind != ShowEnvelope || len(c.Summaries) != len(c.Combinations) {
+	if c.Show.Kind != ShowEnvelope {
 		return
 	}
 	words := make([][]string, len(per))
 	for k := range per {
-		per[k], words[k] = c.patterned(a, k, slices.Clone(per[k]), opts)
+		if c.Unsolved[k] == nil {
+			per[k], words[k] = c.patterned(a, k, slices.Clone(per[k]), opts)
+		}
 	}
 	a.Checks, c.Governing = nil, nil
 	for _, name := range checkNames(per) {
@@ -677,13 +690,22 @@ func (c *Cases) combinationWords(m *fem.Model, k int) string {
 	if k < 0 || k >= len(c.Combinations) {
 		return ""
 	}
-	cb := &c.Combinations[k]
-	for _, f := range cb.Factors {
+	for _, f := range c.Combinations[k].Factors {
 		if f.Case >= 0 && f.Case < len(m.Cases) && m.Cases[f.Case].BySpan {
-			return fmt.Sprintf(" in combination %q with every span loaded", cb.Name)
+			return " in " + c.combinationName(m, k) + " with every span loaded"
 		}
 	}
-	return fmt.Sprintf(" in combination %q", cb.Name)
+	return " in " + c.combinationName(m, k)
+}
+
+// combinationName names combination k of c: `combination "ULS 1"`, or
+// `load case "permanent"` for a model without combinations, whose
+// envelope takes each case alone at factor 1 (fem.Model.EnvelopeCombinations).
+func (c *Cases) combinationName(m *fem.Model, k int) string {
+	if len(m.Combinations) == 0 {
+		return fmt.Sprintf("load case %q", c.Combinations[k].Name)
+	}
+	return fmt.Sprintf("combination %q", c.Combinations[k].Name)
 }
 
 // shownCombination is the combination whose solution the analysis shows

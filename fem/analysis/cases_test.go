@@ -4,6 +4,7 @@ import (
 	"context"
 	"math"
 	"reflect"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -38,7 +39,7 @@ func TestCasesSummariesAreEachCombinations(t *testing.T) {
 				if err != nil {
 					t.Fatal(err)
 				}
-				if want := fem.Summarize(s, e); !reflect.DeepEqual(c.Summaries[k], want) {
+				if want := fem.Summarize(s, e); c.Summaries[k] == nil || !reflect.DeepEqual(*c.Summaries[k], want) {
 					t.Errorf("%s, %s: combination %d's summary differs from its own", name, show.Title(&m), k+1)
 				}
 			}
@@ -62,7 +63,7 @@ func TestCasesSummariesAreEachCombinations(t *testing.T) {
 						t.Errorf("%s, %s: check %q differs from check.Run's", name, show.Title(&m), got.Name)
 					}
 				}
-				if got, want := a.Summary(), c.Summaries[show.Index]; !reflect.DeepEqual(got, want) {
+				if got, want := a.Summary(), c.Summaries[show.Index]; want == nil || !reflect.DeepEqual(got, *want) {
 					t.Errorf("%s, %s: the analysis's summary is not the combination's", name, show.Title(&m))
 				}
 			}
@@ -656,5 +657,90 @@ func TestCoarseMeshWeighsEveryCombinationOfAFiniteElementEnvelope(t *testing.T) 
 		if !strings.Contains(f.Message, want) {
 			t.Errorf("the caution reads %q; want it to say %q", f.Message, want)
 		}
+	}
+}
+
+// A combination whose results underflow has none: a factor of 1e-306 on
+// the shipped two spans' case placed by span (its span shares are solved
+// at factor 1, their sum at that factor comes to less than 2.2e-308, which
+// fem refuses). It must keep its place among the combinations: its
+// summary was skipped, so the next combination's was read as its (the
+// large_displacement caution named it for the next one's rotation), and
+// the envelope, one summary short, kept the first combination's checks
+// alone. Here the third combination is 100 times the uniform load on both
+// spans, q = 1 MN/m, L = 4 m, EI = 3.2 MN·m²: the end rotation of two
+// equal spans under a uniform load is q·L³/(48·EI) = 0.42 rad, beyond the
+// 0.1 rad of small-displacement theory, and the largest deflection
+// 0.0054·q·L⁴/EI = 0.43 m, beyond span/360 = 11 mm (beam tables, two
+// equal spans, uniform load, from memory), where the first combination's
+// 4.3 mm is within it.
+func TestUnsolvedCombinationKeepsItsPlace(t *testing.T) {
+	m := load(t, "two_span_cases.json")
+	m.Combinations[1].Factors = []fem.CaseFactor{{Case: 2, Factor: 1e-306}}
+	m.Combinations[2].Factors = []fem.CaseFactor{{Case: 0, Factor: 100}}
+	unsolved, heavy := m.Combinations[1].Name, m.Combinations[2].Name
+	for _, show := range []Show{{Kind: ShowEnvelope}, {Kind: ShowCombination, Index: 0}} {
+		a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions(), Show: show})
+		if err != nil || a.Err != nil || a.Cases == nil {
+			t.Fatalf("%s: %v, %v", show.Title(&m), err, a.Err)
+		}
+		c := a.Cases
+		if len(c.Summaries) != len(c.Combinations) || len(c.Unsolved) != len(c.Combinations) {
+			t.Fatalf("%s: %d summaries and %d errors of %d combinations, want one each", show.Title(&m), len(c.Summaries), len(c.Unsolved), len(c.Combinations))
+		}
+		if c.Summaries[1] != nil || c.Unsolved[1] == nil {
+			t.Errorf("%s: combination %q has a summary (%v) and error %v; want none and why", show.Title(&m), unsolved, c.Summaries[1] != nil, c.Unsolved[1])
+		}
+		s, err := c.Solutions.Solution(2)
+		if err != nil {
+			t.Fatal(err)
+		}
+		e, err := c.Solutions.Exact(2)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if want := fem.Summarize(s, e); c.Summaries[2] == nil || !reflect.DeepEqual(*c.Summaries[2], want) {
+			t.Errorf("%s: combination %q's summary is not its own", show.Title(&m), heavy)
+		}
+		var large, none bool
+		for _, f := range a.Findings() {
+			switch f.Code {
+			case CodeLargeDisplacement:
+				large = true
+				if !strings.Contains(f.Message, strconv.Quote(heavy)) || strings.Contains(f.Message, strconv.Quote(unsolved)) {
+					t.Errorf("%s: %s names the wrong combination, want %q: %s", show.Title(&m), f.Code, heavy, f.Message)
+				}
+			case CodeNoResults:
+				none = none || strings.Contains(f.Name+f.Message, strconv.Quote(unsolved))
+			}
+		}
+		if !large || !none {
+			t.Errorf("%s: large displacement finding %v, finding that %q has no results %v; want both", show.Title(&m), large, unsolved, none)
+		}
+		if show.Kind != ShowEnvelope {
+			continue
+		}
+		failed := false
+		for _, r := range a.Checks {
+			failed = failed || r.Code == check.CodeDeflection && r.Status == check.Fail && strings.Contains(r.Name, "governing: "+heavy)
+		}
+		if !failed {
+			t.Errorf("envelope: no deflection check fails by combination %q; checks %v", heavy, a.Checks)
+		}
+	}
+}
+
+// The envelope shows its first combination: when that one cannot be
+// solved (the factor of 1e-306 of TestUnsolvedCombinationKeepsItsPlace),
+// the analysis has no results, and its error must say which combination.
+func TestUnsolvedFirstCombinationIsNamed(t *testing.T) {
+	m := load(t, "two_span_cases.json")
+	m.Combinations[0].Factors = []fem.CaseFactor{{Case: 2, Factor: 1e-306}}
+	a, err := Run(context.Background(), Request{Model: m, Show: Show{Kind: ShowEnvelope}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if a.Err == nil || !strings.Contains(a.Err.Error(), strconv.Quote(m.Combinations[0].Name)) {
+		t.Errorf("error %v, want one naming combination %q", a.Err, m.Combinations[0].Name)
 	}
 }

@@ -124,6 +124,15 @@ func (a *Analysis) Findings() []Finding {
 	for _, msg := range a.Solution.Warnings {
 		out = append(out, finding(CodeCondition, "solver", msg))
 	}
+	if a.Cases != nil {
+		for k, err := range a.Cases.Unsolved {
+			if err != nil {
+				name := a.Cases.combinationName(&a.Model, k)
+				out = append(out, finding(CodeNoResults, "no results of "+name,
+					fmt.Sprintf("The %s could not be solved: %v. It has no results, and the checks of the envelope leave it out.", name, err)))
+			}
+		}
+	}
 	for _, cb := range a.Model.Combinations {
 		for _, tf := range cb.Trains {
 			train := a.trainLabel(tf.Train)
@@ -279,8 +288,10 @@ func (a *Analysis) largeDisplacement() (Finding, bool) {
 	}
 	sols := []solution{{a.summary, a.Cases.solutionWords(&a.Model)}}
 	if a.Cases != nil {
-		for k := range a.Cases.Summaries {
-			sols = append(sols, solution{&a.Cases.Summaries[k], fmt.Sprintf(" in combination %q", a.Cases.Combinations[k].Name)})
+		for k, sum := range a.Cases.Summaries {
+			if sum != nil {
+				sols = append(sols, solution{sum, " in " + a.Cases.combinationName(&a.Model, k)})
+			}
 		}
 	}
 	type beyond struct {
@@ -348,9 +359,12 @@ func (a *Analysis) coarseMesh() (Finding, bool) {
 	if feEnvelope {
 		// The envelope's values are every combination's finite element
 		// ones: the worst combination's mesh error is the envelope's.
-		for k := range a.Cases.Summaries {
-			if w, ok := a.Cases.Summaries[k].Worst(); ok && w.Accuracy > worst.Accuracy {
-				sum, worst, words = &a.Cases.Summaries[k], w, a.Cases.combinationWords(&a.Model, k)
+		for k, cs := range a.Cases.Summaries {
+			if cs == nil { // not solved: the no_results finding says so
+				continue
+			}
+			if w, ok := cs.Worst(); ok && w.Accuracy > worst.Accuracy {
+				sum, worst, words = cs, w, a.Cases.combinationWords(&a.Model, k)
 			}
 		}
 	}

@@ -817,3 +817,37 @@ func TestBucklingOfAColumnUnderItsOwnWeight(t *testing.T) {
 		}
 	}
 }
+
+// Loads that act at a support go straight into it, and the member carries
+// nothing (statics, from memory): a moment at a fixed end, a pull at a
+// pinned end of a tie. The exact stresses are round-off then (1e-13 Pa
+// beside the loads' 1 kPa), and the stress check read them as a stress,
+// "2.691e-18 MPa ... (FE − exact -2.691e-18 MPa, -100 %)". Against the
+// loads' scale they are zero, as the summary's extremes say.
+func TestLoadsIntoSupportsStressNothing(t *testing.T) {
+	member := func(L float64, supports []fem.Support, load fem.PointLoad, axialOnly bool) fem.Model {
+		return fem.Model{Segments: []fem.Segment{{Start: 0, End: L,
+			Section:  fem.Section{Area: 0.0033, SecondMoment: 3.3e-5, FibreDistance: 0.1},
+			Material: fem.Material{Name: "steel", Elastic: 200e9, ThermalExpansion: 12e-6, Allowable: 160e6}}},
+			Supports: supports, PointLoads: []fem.PointLoad{load}, AxialOnly: axialOnly}
+	}
+	for _, c := range []struct {
+		name string
+		m    fem.Model
+	}{
+		{"moment at the fixed end of a beam on three supports", member(3.7,
+			[]fem.Support{{X: 0, Kind: fem.Pinned}, {X: 1.591, Kind: fem.Roller}, {X: 3.7, Kind: fem.Fixed}}, fem.PointLoad{X: 3.7, Moment: 3.3}, false)},
+		{"pull at a pinned end of a tie", member(3.7,
+			[]fem.Support{{X: 0, Kind: fem.Pinned}, {X: 3.7, Kind: fem.Pinned}}, fem.PointLoad{X: 3.7, Axial: 3.3}, true)},
+	} {
+		s, e := solveBoth(t, &c.m)
+		for _, r := range Run(&c.m, s, e, DefaultOptions()) {
+			if r.Code != CodeStress && r.Code != CodeDeflection {
+				continue
+			}
+			if r.Value != 0 || r.FE != 0 || strings.Contains(r.Message, "%)") {
+				t.Errorf("%s: %s reads %g (FE %g), want 0 and no share of it: %s", c.name, r.Name, r.Value, r.FE, r.Message)
+			}
+		}
+	}
+}
