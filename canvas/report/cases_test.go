@@ -331,14 +331,7 @@ func TestCasesTextSaysWhatEachCaseHolds(t *testing.T) {
 		"imposed":    "1 distributed load, placed by span",
 		"own weight": "self-weight",
 	}
-	src, err := Analyse(context.Background(), p)
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := CasesResults(src.Analysis)
-	if err != nil {
-		t.Fatal(err)
-	}
+	r := casesResults(t, p)
 	var text bytes.Buffer
 	WriteCasesText(&text, "model.json", r, units.SI)
 	lines := strings.Split(text.String(), "\n")

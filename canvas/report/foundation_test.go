@@ -324,14 +324,7 @@ func TestTextOfNoSupportsPointsToTheGround(t *testing.T) {
 	withCases.Model.Cases = []fem.LoadCase{{Name: "imposed", PointLoads: load}}
 
 	_, solveText := solveProject(t, alone)
-	src, err := Analyse(context.Background(), withCases)
-	if err != nil {
-		t.Fatal(err)
-	}
-	cases, err := CasesResults(src.Analysis)
-	if err != nil {
-		t.Fatal(err)
-	}
+	cases := casesResults(t, withCases)
 	var casesText bytes.Buffer
 	WriteCasesText(&casesText, "model.json", cases, units.SI)
 

@@ -660,15 +660,8 @@ func TestBucklingLeavesSpringsOutConservatively(t *testing.T) {
 		m := beam(L, c.supports, 0)
 		m.PointLoads = []fem.PointLoad{{X: L, Axial: -P}}
 		s, e := solveBoth(t, &m)
-		var r *Result
-		results := Run(&m, s, e, Options{})
-		for i := range results {
-			if results[i].Code == CodeBuckling && results[i].Span == c.span {
-				r = &results[i]
-			}
-		}
+		r := bucklingOver(t, c.name, Run(&m, s, e, Options{}), c.span)
 		if r == nil {
-			t.Errorf("%s: no buckling check of %v in %v", c.name, c.span, names(results))
 			continue
 		}
 		length := c.span[1] - c.span[0]
@@ -797,15 +790,8 @@ func TestBucklingOfAColumnUnderItsOwnWeight(t *testing.T) {
 			m.PointLoads = []fem.PointLoad{c.load}
 		}
 		s, e := solveBoth(t, &m)
-		var r *Result
-		results := Run(&m, s, e, Options{})
-		for i := range results {
-			if results[i].Code == CodeBuckling && results[i].Span == c.span {
-				r = &results[i]
-			}
-		}
+		r := bucklingOver(t, c.name, Run(&m, s, e, Options{}), c.span)
 		if r == nil {
-			t.Errorf("%s: no buckling check of %v in %v", c.name, c.span, names(results))
 			continue
 		}
 		foot := -c.load.Axial + weight*math.Abs(c.gravity)/g
@@ -850,4 +836,17 @@ func TestLoadsIntoSupportsStressNothing(t *testing.T) {
 			}
 		}
 	}
+}
+
+// bucklingOver is the buckling check of span among results, nil (and an
+// error of the test named name) when there is none.
+func bucklingOver(t *testing.T, name string, results []Result, span [2]float64) *Result {
+	t.Helper()
+	for i := range results {
+		if results[i].Code == CodeBuckling && results[i].Span == span {
+			return &results[i]
+		}
+	}
+	t.Errorf("%s: no buckling check of %v in %v", name, span, names(results))
+	return nil
 }
