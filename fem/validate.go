@@ -312,7 +312,25 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 				v.add(Place{Item: it, Property: FactorProperty, Vertex: f}, fmt.Sprintf("combination %q, factor %d is %v: enter a finite number", cb.Name, f+1, cf.Factor))
 			}
 		}
+		if len(cb.Factors) > 0 && appliesNothing(cb) {
+			v.add(Place{Item: it, Property: FactorsProperty}, fmt.Sprintf("combination %q applies no load: every factor is 0 (its envelope would be zero everywhere and govern nothing): give a case a factor other than 0, or delete the combination", cb.Name))
+		}
 	}
+}
+
+// appliesNothing says every factor of cb, on its cases and its trains, is 0.
+func appliesNothing(cb Combination) bool {
+	for _, cf := range cb.Factors {
+		if cf.Factor != 0 {
+			return false
+		}
+	}
+	for _, tf := range cb.Trains {
+		if tf.Factor != 0 {
+			return false
+		}
+	}
+	return true
 }
 
 // trainEntries refuses combinations that take moving load trains more than

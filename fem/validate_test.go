@@ -379,3 +379,41 @@ func keyPointModel(kind string, n int) *Model {
 	}
 	return m
 }
+
+// A combination whose every factor is 0 applies no load: it was accepted
+// without a word and its envelope row read "within 0 % (worst: axial
+// displacement in Z)". One factor other than 0, on a case or on a moving
+// load train, is a load.
+func TestValidateCombinationOfZeroFactors(t *testing.T) {
+	withCases := func(m *Model, factors ...float64) {
+		m.PointLoads, m.DistributedLoad = nil, nil
+		m.Cases = []LoadCase{
+			{Name: "permanent", PointLoads: []PointLoad{{X: 1.5, Transverse: -1e3}}},
+			{Name: "imposed", PointLoads: []PointLoad{{X: 2, Transverse: -1e3}}},
+		}
+		cb := Combination{Name: "Z"}
+		for k, f := range factors {
+			cb.Factors = append(cb.Factors, CaseFactor{Case: k, Factor: f})
+		}
+		m.Combinations = []Combination{cb}
+	}
+	checkValidation(t, []validationCase{
+		{"every factor 0", func(m *Model) { withCases(m, 0, 0) }, place(CombinationItem, 0, FactorsProperty), `combination "Z" applies no load: every factor is 0`},
+	})
+	for _, c := range []struct {
+		name string
+		edit func(m *Model)
+	}{
+		{"one factor not 0", func(m *Model) { withCases(m, 0, -0.5) }},
+		{"a train's factor not 0", func(m *Model) {
+			withCases(m, 0, 0)
+			m.Combinations[0].Trains = []TrainFactor{{Train: 0, Factor: 1}}
+		}},
+	} {
+		m := validModel()
+		c.edit(m)
+		if err := m.Validate(); err != nil {
+			t.Errorf("%s: refused: %v", c.name, err)
+		}
+	}
+}
