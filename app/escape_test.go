@@ -64,13 +64,7 @@ func TestEscapeClosesDialogs(t *testing.T) {
 		// where is -1 for Escape with the focus nowhere, k for Escape in
 		// the dialog's entry k.
 		for where := -1; ; where++ {
-			w, q := openTestdata(t, "two_span_cases.json", laptop)
-			finished(t, w, q)
-			c := w.win.Canvas()
-			d.show(w)
-			if c.Overlays().Top() == nil {
-				t.Fatalf("%s: no dialog showing", d.name)
-			}
+			w, c := dialogOnTwoSpans(t, d.name, d.show)
 			entries := dialogEntries(w)
 			if where >= len(entries) {
 				break
@@ -105,4 +99,18 @@ func TestEscapeOnUnsavedChangesCancels(t *testing.T) {
 	if open := w.win.Canvas().Overlays().Top() != nil; open || !w.dirty() || !strings.Contains(w.status.Text, "kept working") {
 		t.Errorf("Escape on unsaved changes: dialog open %v, unsaved changes %v, status %q", open, w.dirty(), w.status.Text)
 	}
+}
+
+// dialogOnTwoSpans opens the window on the two spans with cases on a
+// laptop's screen, solved, and shows the dialog named name by show.
+func dialogOnTwoSpans(t *testing.T, name string, show func(w *Window)) (*Window, fyne.Canvas) {
+	t.Helper()
+	w, q := openTestdata(t, "two_span_cases.json", laptop)
+	finished(t, w, q)
+	c := w.win.Canvas()
+	show(w)
+	if c.Overlays().Top() == nil {
+		t.Fatalf("%s: no dialog showing", name)
+	}
+	return w, c
 }

@@ -449,13 +449,7 @@ func TestFormDialogsByKeyboard(t *testing.T) {
 		{"adaptive refinement", func(w *Window) { w.runAdaptive() }, "", func(w *Window) bool { return w.study != 0 || w.adaptNodes != nil }},
 	}
 	for _, d := range dialogs {
-		w, q := openTestdata(t, "two_span_cases.json", laptop)
-		finished(t, w, q)
-		c := w.win.Canvas()
-		d.show(w)
-		if c.Overlays().Top() == nil {
-			t.Fatalf("%s: no dialog showing", d.name)
-		}
+		w, c := dialogOnTwoSpans(t, d.name, d.show)
 		e, ok := c.Focused().(*escEntry)
 		if !ok {
 			t.Errorf("%s: the dialog opens with the focus on %T, want its first field", d.name, c.Focused())
