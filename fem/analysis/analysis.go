@@ -8,7 +8,9 @@
 // An analysis runs in two stages: Solve gives the finite element result,
 // which is all a drawing needs, and Finish adds the exact solution and the
 // checks, which cost more; Run does both. The window shows the first stage
-// while the user drags and the second when the mouse rests.
+// while the user drags and the second when the mouse rests. Solve starts
+// the exact solution on a goroutine of its own beside the finite element
+// solve, which needs nothing of it, and Finish waits for it.
 package analysis
 
 import (
@@ -16,6 +18,7 @@ import (
 	"errors"
 	"fmt"
 	"slices"
+	"sync/atomic"
 
 	"stave/fem"
 	"stave/fem/check"
@@ -65,6 +68,69 @@ type Analysis struct {
 	// summary is what Finish's walk gathered for Summary; shared by the
 	// copies of a, never changed.
 	summary *fem.Summary
+	// prepared is the model as Solve prepared it, whose exact solution
+	// Finish takes; nil where Solve prepared none (cases, a refused model)
+	// and after Finish.
+	prepared *prepared
+}
+
+// prepared is a member prepared by Solve, with the work of its exact
+// solution started ahead of Finish where Solve could start it: the finite
+// element solve needs nothing of the exact solution, so the two share the
+// cores, and Finish waits for it.
+type prepared struct {
+	member *fem.Member
+	ahead  *ahead // nil when Solve started none
+}
+
+// exact is the member's exact solution, once the work ahead has ended
+// (fem.Member works it out once and keeps it).
+func (pr *prepared) exact() (*fem.Exact, error) {
+	pr.ahead.wait()
+	return pr.member.Exact()
+}
+
+// aheadToken is held while one piece of work runs ahead (startAhead).
+var aheadToken atomic.Bool
+
+// ahead is work running on a goroutine of its own.
+type ahead struct {
+	done     chan struct{} // closed when the work ends
+	panicked any           // what it panicked with, or nil
+}
+
+// startAhead runs work on a goroutine of its own, unless other work is
+// running ahead: then it returns nil and the caller does the work when it
+// needs it. Only one runs at a time because a window's drag submits models
+// faster than it finishes them and skips Finish for all but the last, so a
+// second start while one runs would only pile up work nobody waits for.
+func startAhead(work func()) *ahead {
+	if !aheadToken.CompareAndSwap(false, true) {
+		return nil
+	}
+	w := &ahead{done: make(chan struct{})}
+	go func() {
+		defer func() {
+			w.panicked = recover()
+			aheadToken.Store(false) // free before the waiter wakes
+			close(w.done)
+		}()
+		work()
+	}()
+	return w
+}
+
+// wait waits for the work to end and raises its panic again, in the
+// caller's goroutine, where a caller may recover it (a batch check does).
+// Nothing to wait for on a nil w.
+func (w *ahead) wait() {
+	if w == nil {
+		return
+	}
+	<-w.done
+	if w.panicked != nil {
+		panic(w.panicked)
+	}
 }
 
 // Solve is the first stage: r's model solved by finite elements, on r's
@@ -86,16 +152,20 @@ func Solve(ctx context.Context, r Request) (Analysis, error) {
 		solveCases(&a, r)
 		return a, nil
 	}
-	if r.Nodes == nil {
-		a.Solution, a.Err = fem.Solve(&a.Model)
+	p, err := fem.Prepare(&a.Model)
+	if err != nil {
+		a.Err = err
 		return a, nil
 	}
-	mesh, err := fem.MeshFromNodes(&a.Model, r.Nodes)
-	if err != nil {
+	a.prepared = &prepared{member: p, ahead: startAhead(func() { p.Exact() })}
+	var mesh fem.Mesh
+	if r.Nodes == nil {
+		mesh = p.Mesh()
+	} else if mesh, err = p.MeshOn(r.Nodes); err != nil {
 		a.Err = fmt.Errorf("the refined mesh does not fit the model: %w", err)
 		return a, nil
 	}
-	a.Solution, a.Err = fem.SolveOnMesh(&a.Model, mesh)
+	a.Solution, a.Err = p.Solve(mesh)
 	return a, nil
 }
 
@@ -114,6 +184,9 @@ func Finish(ctx context.Context, r Request, a Analysis) (Analysis, error) {
 	if a.Cases != nil {
 		a.Cases = a.Cases.clone()
 		a.Exact, a.ExactErr = a.Cases.exact()
+	} else if a.prepared != nil {
+		a.Exact, a.ExactErr = a.prepared.exact()
+		a.prepared = nil
 	} else {
 		a.Exact, a.ExactErr = fem.SolveExact(&a.Model)
 	}
