@@ -13,14 +13,14 @@ import (
 )
 
 // BenchmarkPostProcessing times, in each iteration and side by side, the
-// finite element solve (analysis.Solve: mesh, both problems, reactions)
-// and what follows it:
+// finite element solve (analysis.Solve: mesh, both problems, reactions;
+// it starts the exact solution beside them) and what follows it:
 //
 //   - summary: the exact solution, one walk over the elements for the
 //     extremes and the comparison with the exact solution (fem.Summarize),
 //     and the summary as JSON;
 //   - finish: everything `stave solve --json` does after the solve
-//     (analysis.Finish: the exact solution, one walk for the summary and the
+//     (analysis.Finish: the exact solution waited for, one walk for the summary and the
 //     checks' probes, the checks and the handbook case; then the JSON).
 //
 // It reports summary/solve and finish/solve, and the solve per element.
