@@ -336,12 +336,41 @@ func FormatNumberFigures(v float64, figures int) string {
 		return "0"
 	}
 	// Round first so 9.9996 becomes 10.00, not 9.9996 printed as "10.000".
-	rounded, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'e', figures-1, 64), 64)
+	rounded := roundFigures(v, figures)
 	exponent := int(math.Floor(math.Log10(math.Abs(rounded))))
 	if exponent < -3 || exponent >= 6 {
 		return strconv.FormatFloat(rounded, 'e', figures-1, 64)
 	}
 	return strconv.FormatFloat(rounded, 'f', max(figures-1-exponent, 0), 64)
+}
+
+// noiseFigures are the significant figures of a computed value beyond
+// which its decimals are round-off: two computations of one value (the
+// exact and the finite element solution) agree to about 1e-13 of its size.
+const noiseFigures = 12
+
+// roundFigures is v, finite and not zero, rounded to the given significant
+// figures, a half away from zero. To fewer than noiseFigures it rounds v's
+// first noiseFigures decimal figures, so that a value halfway between two
+// spellings (16.875 to four figures) rounds the same way whichever side of
+// the half round-off left it; to more it rounds v as it is, for a value
+// told from another one just beside it (check.LimitFigures).
+func roundFigures(v float64, figures int) float64 {
+	if figures >= noiseFigures {
+		r, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'e', figures-1, 64), 64)
+		return r
+	}
+	// |v| to noiseFigures figures, "d.ddddddddddde±XX".
+	mantissa, exponent, _ := strings.Cut(strconv.FormatFloat(math.Abs(v), 'e', noiseFigures-1, 64), "e")
+	digits, _ := strconv.ParseInt(strings.Replace(mantissa, ".", "", 1), 10, 64)
+	e, _ := strconv.Atoi(exponent)
+	drop := int64(math.Pow10(noiseFigures - figures))
+	kept := digits / drop
+	if 2*(digits%drop) >= drop {
+		kept++
+	}
+	r, _ := strconv.ParseFloat(strconv.FormatInt(kept, 10)+"e"+strconv.Itoa(e-figures+1), 64)
+	return math.Copysign(r, v)
 }
 
 // Parse reads text typed for a value of q and returns it in SI. A plain

@@ -581,3 +581,37 @@ func TestCount(t *testing.T) {
 		}
 	}
 }
+
+// A value that lies halfway between two spellings of four figures prints
+// one way, whatever round-off its computation left in the last bits: the
+// exact and the finite element solutions of one propped cantilever give its
+// fixed-end stress 3PL/16·c/I = 16.875 MPa (P = 10 kN, L = 6 m, c = 0.15 m,
+// I = 1e-4 m⁴; AISC Manual, Beam Diagrams and Formulas, case 13, from
+// memory) as 16874999.999999996 and 16875000 Pa, and a three-span beam's
+// end rotation wL³/(40EI) = 0.0015625 rad (w = 10 kN/m, L = 5 m, EI = 2e7
+// N·m²; slope-deflection with support moments wL²/10, from memory) as
+// 0.0015625000000000018 and 0.0015624999999999999 rad. Round-off stays
+// below twelve figures; the half is rounded away from zero, as by hand
+// (ISO 80000-1:2009 Annex B, rule B, from memory).
+func TestFormatHalfwayIsOneSpelling(t *testing.T) {
+	cases := []struct {
+		s    System
+		q    Kind
+		near float64
+		want string
+	}{
+		{SI, Stress, 16.875e6, "16.88 MPa"},
+		{SI, Stress, -16.875e6, "-16.88 MPa"},
+		{SI, Rotation, 0.0015625, "0.001563 rad"},
+		{SI, Rotation, -0.0015625, "-0.001563 rad"},
+		{SI, Force, 12345, "12.35 kN"},
+	}
+	for _, c := range cases {
+		for _, ulps := range []float64{-4, -1, 0, 1, 4} {
+			v := c.near + ulps*(math.Nextafter(c.near, math.Inf(1))-c.near)
+			if got := c.s.Format(c.q, v); got != c.want {
+				t.Errorf("%s Format(%s, %.17g) = %q, want %q", c.s.Name, c.q, v, got, c.want)
+			}
+		}
+	}
+}
