@@ -1,0 +1,63 @@
+package main
+
+import (
+	"encoding/json"
+	"strings"
+	"testing"
+)
+
+// A model the supports leave free is refused with the place quoted in the
+// display units: --units, else the file's view.units. The simply
+// supported beam (4 m) on one pin at x = 3.048 m, 10 ft exactly (NIST SP
+// 811 (2008), Appendix B: 1 ft = 0.3048 m), rotates about it. The JSON
+// document's values stay SI; its messages are the findings', in the units
+// of the request as every finding's (the checks' too).
+func TestSolveMechanismInDisplayUnits(t *testing.T) {
+	dir := t.TempDir()
+	onePin := func(view string) func(m map[string]any) {
+		return func(m map[string]any) {
+			m["supports"] = []any{map[string]any{"x": 3.048, "kind": "pinned"}}
+			m["view"].(map[string]any)["units"] = view
+		}
+	}
+	si := variant(t, dir, "one_pin_si", onePin("SI"))
+	us := variant(t, dir, "one_pin_us", onePin("US"))
+	withCases := variant(t, dir, "one_pin_cases", func(m map[string]any) {
+		onePin("US")(m)
+		m["cases"] = []any{map[string]any{"name": "dead", "loads": m["loads"]}}
+		delete(m, "loads")
+	})
+	const (
+		inFeet   = "the member can rotate about the support at x = 10.0 ft: add a second support or fix one end"
+		inMetres = "the member can rotate about the support at x = 3.048 m: add a second support or fix one end"
+	)
+	for _, c := range []struct {
+		name string
+		args []string
+		want string
+	}{
+		{"--units US", []string{"solve", "--units", "US", si}, inFeet},
+		{"view.units US", []string{"solve", us}, inFeet},
+		{"view.units SI", []string{"solve", si}, inMetres},
+		{"--units SI", []string{"solve", "--units", "SI", us}, inMetres},
+		{"load cases, view.units US", []string{"solve", withCases}, inFeet},
+		{"JSON, --units US", []string{"solve", "--json", "--units", "US", si}, inFeet},
+		{"JSON, view.units SI", []string{"solve", "--json", si}, inMetres},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			code, out, stderr := runStave(t, c.args...)
+			if code != 1 || !strings.Contains(stderr, c.want) {
+				t.Errorf("exit %d, stderr %q; want exit 1 and %q", code, stderr, c.want)
+			}
+			if c.args[1] != "--json" {
+				return
+			}
+			var d struct {
+				Warnings []struct{ Code, Message string }
+			}
+			if err := json.Unmarshal([]byte(out), &d); err != nil || len(d.Warnings) != 1 || d.Warnings[0].Code != "mechanism" || d.Warnings[0].Message != c.want {
+				t.Errorf("JSON warnings %+v (%v), want one mechanism saying %q", d.Warnings, err, c.want)
+			}
+		})
+	}
+}
