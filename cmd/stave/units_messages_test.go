@@ -61,3 +61,66 @@ func TestSolveMechanismInDisplayUnits(t *testing.T) {
 		})
 	}
 }
+
+// A train that does not fit on the member is left out of the solve's
+// trains with why, its lengths in the display units. The runway's member
+// is 12 m long; its end carriage's axles set 15.24 m apart, 50 ft exactly
+// (NIST SP 811 (2008), Appendix B: 1 ft = 0.3048 m); 12 m = 39.3701 ft to
+// six figures. The finding and the train's error in the JSON say the same.
+func TestSolveTrainNotPlacedInDisplayUnits(t *testing.T) {
+	dir := t.TempDir()
+	long := func(view string) func(m map[string]any) {
+		return func(m map[string]any) {
+			m["trains"].([]any)[0].(map[string]any)["axles"].([]any)[1].(map[string]any)["spacing"] = 15.24
+			m["view"].(map[string]any)["units"] = view
+		}
+	}
+	si := variantOf(t, "../../testdata/moving/runway.json", dir, "long_si", long("SI"))
+	us := variantOf(t, "../../testdata/moving/runway.json", dir, "long_us", long("US"))
+	const (
+		inFeet   = `train "end carriage": the train is 50 ft long and does not fit on the 39.3701 ft it runs along (x = 0 ft to 39.3701 ft): shorten the train or lengthen its run`
+		inMetres = `train "end carriage": the train is 15.24 m long and does not fit on the 12 m it runs along (x = 0 m to 12 m): shorten the train or lengthen its run`
+	)
+	for _, c := range []struct {
+		name string
+		args []string
+		want string
+	}{
+		{"view.units US", []string{"solve", us}, inFeet},
+		{"--units US", []string{"solve", "--units", "US", si}, inFeet},
+		{"view.units SI", []string{"solve", si}, inMetres},
+		{"JSON, view.units US", []string{"solve", "--json", us}, inFeet},
+		{"influence, view.units US", []string{"influence", us, "--quantity", "M", "--at", "10"}, inFeet},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			_, out, stderr := runStave(t, c.args...)
+			if c.args[1] != "--json" {
+				if n := strings.Count(out, c.want); n == 0 {
+					t.Errorf("stdout lacks %q (stderr %s):\n%s", c.want, stderr, out)
+				}
+				return
+			}
+			var d struct {
+				Warnings []struct{ Code, Message string }
+				Trains   []struct{ Train, Error string }
+			}
+			if err := json.Unmarshal([]byte(out), &d); err != nil {
+				t.Fatalf("not JSON: %v", err)
+			}
+			var said []string
+			for _, w := range d.Warnings {
+				if w.Code == "train_not_placed" {
+					said = append(said, w.Message)
+				}
+			}
+			for _, tr := range d.Trains {
+				if tr.Error != "" {
+					said = append(said, tr.Error)
+				}
+			}
+			if len(said) != 2 || !strings.Contains(said[0], c.want) || said[1] != c.want {
+				t.Errorf("the finding and the train's error say %q, want %q", said, c.want)
+			}
+		})
+	}
+}
