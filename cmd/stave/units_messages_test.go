@@ -6,8 +6,9 @@ import (
 	"testing"
 )
 
-// A model the supports leave free is refused with the place quoted in the
-// display units: --units, else the file's view.units. The simply
+// A model the supports leave free is refused, by solve and by influence,
+// with the place quoted in the display units: --units, else the file's
+// view.units. The simply
 // supported beam (4 m) on one pin at x = 3.048 m, 10 ft exactly (NIST SP
 // 811 (2008), Appendix B: 1 ft = 0.3048 m), rotates about it. The JSON
 // document's values stay SI; its messages are the findings', in the units
@@ -43,6 +44,8 @@ func TestSolveMechanismInDisplayUnits(t *testing.T) {
 		{"load cases, view.units US", []string{"solve", withCases}, inFeet},
 		{"JSON, --units US", []string{"solve", "--json", "--units", "US", si}, inFeet},
 		{"JSON, view.units SI", []string{"solve", "--json", si}, inMetres},
+		{"influence, --units US", []string{"influence", "--units", "US", si, "--quantity", "M", "--at", "2"}, inFeet},
+		{"influence, view.units SI", []string{"influence", si, "--quantity", "M", "--at", "2"}, inMetres},
 	} {
 		t.Run(c.name, func(t *testing.T) {
 			code, out, stderr := runStave(t, c.args...)
