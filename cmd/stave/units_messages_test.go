@@ -6,8 +6,8 @@ import (
 	"testing"
 )
 
-// A model the supports leave free is refused, by solve and by influence,
-// with the place quoted in the display units: --units, else the file's
+// A model the supports leave free is refused, by solve, influence and
+// converge, with the place quoted in the display units: --units, else the file's
 // view.units. The simply
 // supported beam (4 m) on one pin at x = 3.048 m, 10 ft exactly (NIST SP
 // 811 (2008), Appendix B: 1 ft = 0.3048 m), rotates about it. The JSON
@@ -46,6 +46,10 @@ func TestSolveMechanismInDisplayUnits(t *testing.T) {
 		{"JSON, view.units SI", []string{"solve", "--json", si}, inMetres},
 		{"influence, --units US", []string{"influence", "--units", "US", si, "--quantity", "M", "--at", "2"}, inFeet},
 		{"influence, view.units SI", []string{"influence", si, "--quantity", "M", "--at", "2"}, inMetres},
+		{"converge, --units US", []string{"converge", "--units", "US", si}, "convergence study needs the exact solution: " + inFeet},
+		{"converge, view.units US", []string{"converge", us}, "convergence study needs the exact solution: " + inFeet},
+		{"converge, view.units SI", []string{"converge", si}, "convergence study needs the exact solution: " + inMetres},
+		{"converge --target, view.units US", []string{"converge", "--target", "0.01", us}, "convergence study needs the exact solution: " + inFeet},
 	} {
 		t.Run(c.name, func(t *testing.T) {
 			code, out, stderr := runStave(t, c.args...)
