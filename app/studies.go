@@ -80,8 +80,9 @@ func (w *Window) cancelStudy() {
 // runConvergence solves the model on meshes refined step by step and shows
 // the errors against the exact solution with the observed rates.
 func (w *Window) runConvergence() {
+	u := w.units // the messages' units, read here on the window's goroutine
 	w.background("convergence study", func(ctx context.Context, m fem.Model) (func(), error) {
-		t, err := study.Convergence(ctx, &m, convergencePerStretch)
+		t, err := study.Convergence(ctx, &m, convergencePerStretch, u)
 		return func() {
 			if err != nil {
 				w.showError(err)
@@ -173,8 +174,9 @@ func (w *Window) runAdaptive() {
 
 // startAdaptive refines towards target in the background.
 func (w *Window) startAdaptive(target float64) {
+	u := w.units // the messages' units, read here on the window's goroutine
 	w.background("adaptive refinement", func(ctx context.Context, m fem.Model) (func(), error) {
-		v, err := study.AgainstUniform(ctx, &m, target, adaptMaxElements, adaptMaxUniform)
+		v, err := study.AgainstUniform(ctx, &m, target, adaptMaxElements, adaptMaxUniform, u)
 		return func() { w.adaptiveDone(m, target, v, err) }, err
 	})
 }

@@ -574,10 +574,10 @@ func (mw *movingWindow) modelChanged() {
 	// given loads) has the same lines without its loads.
 	p := mw.w.canonical()
 	loaded := p // the combinations' cases need their loads
-	member, infl, err := report.InfluenceOf(&p)
+	member, infl, err := report.InfluenceOf(&p, mw.w.units)
 	if err != nil {
 		p.Model = moving.Unloaded(&p.Model)
-		member, infl, err = report.InfluenceOf(&p)
+		member, infl, err = report.InfluenceOf(&p, mw.w.units)
 	}
 	if err == nil {
 		mw.member, mw.mesh, mw.infl = member, member.Mesh(), infl

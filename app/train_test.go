@@ -325,7 +325,7 @@ func TestMovingWindowWorksAsTheCommandLine(t *testing.T) {
 func canonicalInfluence(t *testing.T, w *Window) *moving.Envelope {
 	t.Helper()
 	p := w.canonical()
-	rs, err := report.TrainEnvelopes(&p)
+	rs, err := report.TrainEnvelopes(&p, units.Base)
 	if err != nil || len(rs) == 0 || rs[0].Err != nil {
 		t.Fatalf("the command line's train envelopes: %v %+v", err, rs)
 	}
@@ -372,7 +372,7 @@ func TestMovingWindowTakesATypedPoint(t *testing.T) {
 // results give it (report.TrainEnvelopes), and back the train alone.
 func TestMovingWindowShowsACombinationWithItsTrain(t *testing.T) {
 	p := twoSpansWithTrains(t, pairTrain)
-	results, err := report.TrainEnvelopes(p)
+	results, err := report.TrainEnvelopes(p, units.Base)
 	if err != nil || len(results) != 1 || len(results[0].Combinations) != 1 {
 		t.Fatalf("the command line's trains' results: %v, %+v", err, results)
 	}

@@ -7,6 +7,7 @@ import (
 	"slices"
 
 	"stave/fem/band"
+	"stave/fem/units"
 )
 
 // assembly is one problem's stiffness on a mesh with the supports applied,
@@ -65,12 +66,12 @@ type coupling struct {
 
 // assemble builds and factorizes the stiffness of form on the elements els
 // between nodes, with the springs and rigid restraints of m's supports.
-func assemble(m *Model, nodes []float64, els []elementData, form Formulation) (*assembly, error) {
+func assemble(m *Model, nodes []float64, els []elementData, form Formulation, u units.System) (*assembly, error) {
 	a, as := build(m, nodes, els, form)
 	if err := as.ldl.Factorize(a); err != nil {
 		var pe *band.PivotError
 		if errors.As(err, &pe) {
-			return nil, pivotMessage(m, nodes, form, pe)
+			return nil, pivotMessage(m, nodes, form, pe, u)
 		}
 		return nil, err
 	}
@@ -253,8 +254,9 @@ func PlainSystem(m *Model, mesh Mesh, problem string) (a *band.Symmetric, b []fl
 // the likeliest cause: a mesh too fine over an elastic foundation (whose
 // every node enters the equations), a stretch of the key-point system much
 // shorter than the member (a stiff piece no load can bend), else springs or
-// stiffnesses far apart.
-func pivotMessage(m *Model, nodes []float64, form Formulation, pe *band.PivotError) error {
+// stiffnesses far apart. It quotes places in the units of u.
+func pivotMessage(m *Model, nodes []float64, form Formulation, pe *band.PivotError, u units.System) error {
+	place := func(x float64) string { return quote(u, units.Position, x) }
 	node := len(nodes) - 1
 	for i := range nodes {
 		if form.nodeDof(i, 0) >= pe.Row {
@@ -265,15 +267,15 @@ func pivotMessage(m *Model, nodes []float64, form Formulation, pe *band.PivotErr
 	x := nodes[node]
 	length := nodes[len(nodes)-1] - nodes[0]
 	if k, ka := m.foundationAt(x); k > 0 || ka > 0 {
-		return fmt.Errorf("the %s equations over the elastic foundation near x = %s are singular to working precision: on a foundation every node of the mesh enters them (%d nodes here), and they grow ill-conditioned as the fourth power of the number of elements; use fewer elements over the foundation, or leave the mesh to Stave", form.Problem(), fmtMetres(x), len(nodes))
+		return fmt.Errorf("the %s equations over the elastic foundation near x = %s are singular to working precision: on a foundation every node of the mesh enters them (%d nodes here), and they grow ill-conditioned as the fourth power of the number of elements; use fewer elements over the foundation, or leave the mesh to Stave", form.Problem(), place(x), len(nodes))
 	}
 	for i := max(node-1, 0); i < min(node+1, len(nodes)-1); i++ {
 		if h := nodes[i+1] - nodes[i]; h < shortStretch*length {
-			a, b := fmtPair(nodes[i], nodes[i+1])
-			return fmt.Errorf("the %s stiffness matrix is singular to working precision at the stretch from x = %s m to %s m, only %s long on a member of %s: supports or changes of section that close together make a piece too stiff to solve; move them apart or, if they are one, make them one point", form.Problem(), a, b, fmtMetres(h), fmtMetres(length))
+			a, b := quotePair(u, units.Position, nodes[i], nodes[i+1])
+			return fmt.Errorf("the %s stiffness matrix is singular to working precision at the stretch from x = %s to %s, only %s long on a member of %s: supports or changes of section that close together make a piece too stiff to solve; move them apart or, if they are one, make them one point", form.Problem(), a, b, place(h), place(length))
 		}
 	}
-	return fmt.Errorf("the %s stiffness matrix is singular to working precision near x = %s (pivot %.3g of diagonal %.3g): check for very soft springs next to stiff parts, or stiffnesses many orders of magnitude apart", form.Problem(), fmtMetres(x), pe.Pivot, pe.Diagonal)
+	return fmt.Errorf("the %s stiffness matrix is singular to working precision near x = %s (pivot %.3g of diagonal %.3g): check for very soft springs next to stiff parts, or stiffnesses many orders of magnitude apart", form.Problem(), place(x), pe.Pivot, pe.Diagonal)
 }
 
 // shortStretch is the length, relative to the member, below which a stretch

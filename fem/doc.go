@@ -32,7 +32,10 @@
 //
 // Everything inside fem is SI: m, N, Pa, kg/m³, K, rad. Conversion to other
 // units happens only at the edges of the program (input fields, files,
-// display); a quantity's unit is stated beside its declaration.
+// display); a quantity's unit is stated beside its declaration. Messages
+// for the user quote values in SI base units, as a file holds them, or in
+// the display units a caller passes (ValidateIn, PrepareIn: package
+// fem/units formats them).
 //
 // # How the pieces fit
 //

@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"testing"
+
+	"stave/fem/units"
 )
 
 // assembled is the plain finite element solution of m on mesh: the fine
@@ -29,7 +31,7 @@ func solveAssembled(t *testing.T, m *Model, mesh Mesh) assembled {
 		out.reactions[i] = Reaction{Support: i, X: sup.X}
 	}
 	for _, p := range []Formulation{barFormulation{order}, hermiteBeam{}} {
-		as, err := assemble(m, mesh.X, els, p)
+		as, err := assemble(m, mesh.X, els, p, units.Base)
 		if err != nil {
 			t.Fatalf("assembled solve: %v", err)
 		}

@@ -8,6 +8,8 @@ import (
 	"strings"
 
 	"gonum.org/v1/gonum/mat"
+
+	"stave/fem/units"
 )
 
 // MechanismError says the supports leave a rigid-body motion free.
@@ -37,8 +39,8 @@ type MechanismPart struct {
 // hinge with a spring across it ties the rotations too, so the parts it
 // joins move as one: it cuts nothing, and a member with no pure hinge is
 // judged as one without hinges. Without bending (an axial-only member)
-// only the bar's counts.
-func checkMechanism(m *Model, bending bool) error {
+// only the bar's counts. The messages quote places in the units of u.
+func checkMechanism(m *Model, bending bool, u units.System) error {
 	var axial, rotation, ground bool
 	var deflection []float64
 	for _, s := range m.Supports {
@@ -63,12 +65,12 @@ func checkMechanism(m *Model, bending bool) error {
 		return &MechanismError{Motion: "transverse", Message: "the member can move sideways: add a support that restrains deflection",
 			Parts: []MechanismPart{{Start: 0, End: m.Length(), Offset: 1}}}
 	case slices.ContainsFunc(m.Hinges, func(h Hinge) bool { return h.Stiffness == 0 }):
-		return hingeMechanism(m)
+		return hingeMechanism(m, u)
 	case ground:
 		return nil
 	case len(deflection) == 1 && !rotation:
 		L := m.Length()
-		return &MechanismError{Motion: "rotation", Message: fmt.Sprintf("the member can rotate about the support at x = %s: add a second support or fix one end", fmtMetres(deflection[0])),
+		return &MechanismError{Motion: "rotation", Message: fmt.Sprintf("the member can rotate about the support at x = %s: add a second support or fix one end", quote(u, units.Position, deflection[0])),
 			Parts: []MechanismPart{{Start: 0, End: L, Offset: -deflection[0] / max(deflection[0], L-deflection[0]), Slope: 1 / max(deflection[0], L-deflection[0])}}}
 	}
 	return nil
@@ -82,8 +84,9 @@ func checkMechanism(m *Model, bending bool) error {
 // shared at a hinge. A hinge with a spring across it shares the rotation
 // too, which makes the parts it joins one: it is no cut. The null space of
 // those constraints is found in one sweep along the chain (chainSweep),
-// in time linear in the hinges, supports and foundations.
-func hingeMechanism(m *Model) error {
+// in time linear in the hinges, supports and foundations. The message
+// quotes places in the units of u.
+func hingeMechanism(m *Model, u units.System) error {
 	L := m.Length()
 	cuts := make([]float64, 0, len(m.Hinges)+2)
 	cuts = append(cuts, 0)
@@ -140,7 +143,7 @@ func hingeMechanism(m *Model) error {
 	if shape == nil {
 		return nil
 	}
-	return mechanismError(m, cuts, shape)
+	return mechanismError(m, cuts, shape, u)
 }
 
 // chainSweep finds the null space of constraints on a chain of unknowns
@@ -327,8 +330,8 @@ func complement(n int, basis [][]float64) [][]float64 {
 }
 
 // mechanismError names the parts that the free motion shape, (offset,
-// scaled slope) per part between cuts, moves.
-func mechanismError(m *Model, cuts []float64, shape [][2]float64) error {
+// scaled slope) per part between cuts, moves, at places in the units of u.
+func mechanismError(m *Model, cuts []float64, shape [][2]float64, u units.System) error {
 	L := m.Length()
 	parts := make([]MechanismPart, len(shape))
 	big := 0.0
@@ -347,10 +350,10 @@ func mechanismError(m *Model, cuts []float64, shape [][2]float64) error {
 	// part 1 µm long read "from x = 4.0 m to 4.0 m").
 	var ends []float64
 	for _, s := range parts {
-		ends = append(ends, s.Start, s.End)
+		ends = append(ends, u.ToDisplay(units.Position, s.Start), u.ToDisplay(units.Position, s.End))
 	}
 	digits := digitsApart(ends)
-	metres := func(x float64) string { return fmtDigits(x, digits) + " m" }
+	place := func(x float64) string { return quoteDigits(u, units.Position, x, digits) }
 	var moving []string
 	count := 0
 	for p := range parts {
@@ -362,7 +365,7 @@ func mechanismError(m *Model, cuts []float64, shape [][2]float64) error {
 		if count++; count > maxPartsNamed {
 			continue
 		}
-		where := fmt.Sprintf("the part from x = %s to %s", metres(s.Start), metres(s.End))
+		where := fmt.Sprintf("the part from x = %s to %s", place(s.Start), place(s.End))
 		if len(parts) == 1 {
 			where = "the member"
 		}
@@ -375,7 +378,7 @@ func mechanismError(m *Model, cuts []float64, shape [][2]float64) error {
 		if i := sort.SearchFloat64s(at, pivot-1e-9*L); i < len(at) && at[i] <= pivot+1e-9*L {
 			pivot = at[i]
 		}
-		moving = append(moving, fmt.Sprintf("%s can turn about x = %s", where, metres(pivot)))
+		moving = append(moving, fmt.Sprintf("%s can turn about x = %s", where, place(pivot)))
 	}
 	if more := count - maxPartsNamed; more > 0 {
 		moving = append(moving, fmt.Sprintf("and %d more parts can move", more))

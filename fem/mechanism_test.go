@@ -10,6 +10,8 @@ import (
 	"testing"
 
 	"gonum.org/v1/gonum/mat"
+
+	"stave/fem/units"
 )
 
 // hingeChain is a member 0 to L with hinges at hs (pure where the
@@ -73,7 +75,7 @@ func TestHingeMechanismCases(t *testing.T) {
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
-			err := hingeMechanism(c.m)
+			err := hingeMechanism(c.m, units.Base)
 			var mech *MechanismError
 			switch {
 			case c.want == "" && err != nil:
@@ -290,7 +292,7 @@ func TestHingeMechanismAsDenseNullSpace(t *testing.T) {
 		}
 		m := hingeChain(L, hs, ss, fs...)
 		cuts, basis := denseNullSpace(m)
-		err := hingeMechanism(m)
+		err := hingeMechanism(m, units.Base)
 		var mech *MechanismError
 		if (basis != nil) != errors.As(err, &mech) {
 			t.Fatalf("model %d (hinges %v, supports %v, foundations %v): got %v, want a mechanism %v", i, hs, ss, fs, err, basis != nil)
@@ -347,12 +349,12 @@ func gerberChain(n int) *Model {
 func TestHingeMechanismThousandsOfHinges(t *testing.T) {
 	const n = 4000
 	m := gerberChain(n)
-	if err := hingeMechanism(m); err != nil {
+	if err := hingeMechanism(m, units.Base); err != nil {
 		t.Fatalf("%d hinges, each part held: %v", n, err)
 	}
 	m.Supports = slices.Delete(m.Supports, 3000, 3001) // the roller at x = 3000 m
 	var mech *MechanismError
-	if err := hingeMechanism(m); !errors.As(err, &mech) {
+	if err := hingeMechanism(m, units.Base); !errors.As(err, &mech) {
 		t.Fatalf("without the roller at 3000 m: %v, want a mechanism", err)
 	}
 	want := "the part from x = 2999.5 m to 3000.5 m can turn about x = 2999.5 m, the part from x = 3000.5 m to 3001.5 m can turn about x = 3001.0 m"
@@ -380,7 +382,7 @@ func BenchmarkHingeMechanism(b *testing.B) {
 		m := gerberChain(n)
 		b.Run(fmt.Sprintf("hinges=%d", n), func(b *testing.B) {
 			for b.Loop() {
-				if err := hingeMechanism(m); err != nil {
+				if err := hingeMechanism(m, units.Base); err != nil {
 					b.Fatal(err)
 				}
 			}

@@ -3,6 +3,8 @@ package fem
 import (
 	"errors"
 	"sync"
+
+	"stave/fem/units"
 )
 
 // Member is a model made ready for solving: validated once, its key points
@@ -20,6 +22,9 @@ type Member struct {
 	mechanism error
 	// bending says the beam problem is solved (Bending).
 	bending bool
+	// units are the units the solver's messages quote values in
+	// (PrepareIn).
+	units units.System
 	// The exact solution's structure and the exact solution under the
 	// member's loads, found once on first use.
 	exactOnce      sync.Once
@@ -30,12 +35,20 @@ type Member struct {
 
 // Prepare validates m and gathers what every solve of it needs. A model
 // whose supports leave it free to move is prepared (it can still be meshed
-// and drawn); its Solve and Exact return the *MechanismError.
-func Prepare(m *Model) (*Member, error) {
-	if err := m.Validate(); err != nil {
+// and drawn); its Solve and Exact return the *MechanismError. Its messages
+// quote values in SI base units (m, N, Pa...), as a file holds them.
+func Prepare(m *Model) (*Member, error) { return PrepareIn(m, units.Base) }
+
+// PrepareIn is Prepare with the messages of the validation (ValidateIn)
+// and of the solves of the member (a mechanism, a singular system)
+// quoting values in the display units of u; units of no name (the zero
+// System) are SI base units, as Prepare's.
+func PrepareIn(m *Model, u units.System) (*Member, error) {
+	u = messageUnits(u)
+	if err := m.ValidateIn(u); err != nil {
 		return nil, err
 	}
-	p := &Member{model: m.Clone()}
+	p := &Member{model: m.Clone(), units: u}
 	p.keys = KeyPoints(&p.model)
 	p.loadSets = gatherLoadSets(&p.model, p.keys)
 	p.loads = p.loadSets[0]
@@ -44,7 +57,7 @@ func Prepare(m *Model) (*Member, error) {
 		bends = bends || p.loadSets[i].bendsMember()
 	}
 	p.bending = !m.AxialOnly && (bends || holdsAcross(m))
-	p.mechanism = checkMechanism(m, p.bending)
+	p.mechanism = checkMechanism(m, p.bending, u)
 	var me *MechanismError
 	if p.bending && !bends && errors.As(p.mechanism, &me) && me.Motion != "axial" {
 		// Nothing loads the member across: it may be meant as a tie or strut.

@@ -167,7 +167,7 @@ func newStructure(p *Member, mesh Mesh) (*Structure, error) {
 	}
 	st.bending = p.bending
 	for i, form := range forms {
-		as, err := assemble(m, st.keyX, st.stretches, form)
+		as, err := assemble(m, st.keyX, st.stretches, form, p.units)
 		if err != nil {
 			return nil, err
 		}

@@ -118,10 +118,7 @@ func (m *Model) Validate() error { return m.ValidateIn(units.Base) }
 // units of u, those a window shows and its user types; units of no name
 // (the zero System) are SI base units, as Validate's.
 func (m *Model) ValidateIn(u units.System) error {
-	if u.Name == "" {
-		u = units.Base
-	}
-	v := validator{u: u}
+	v := validator{u: messageUnits(u)}
 	if m == nil {
 		v.add(Place{Item: modelItem}, "there is no model")
 		return v.err()
@@ -396,7 +393,7 @@ func (v *validator) num(k units.Kind, x float64) string {
 	if k == plain {
 		return fmtNumber(x)
 	}
-	return fmtNumber(v.u.ToDisplay(k, x)) + " " + v.unit(k)
+	return quote(v.u, k, x)
 }
 
 // span is the range from a to b, SI values of kind k: "1e-150 to 1e+150 N/m".
@@ -407,10 +404,7 @@ func (v *validator) span(k units.Kind, a, b float64) string {
 
 // pair is num for two SI values of kind k, with the fewest digits that
 // tell them apart (fmtPair).
-func (v *validator) pair(k units.Kind, a, b float64) (string, string) {
-	da, db := fmtPair(v.u.ToDisplay(k, a), v.u.ToDisplay(k, b))
-	return da + " " + v.unit(k), db + " " + v.unit(k)
-}
+func (v *validator) pair(k units.Kind, a, b float64) (string, string) { return quotePair(v.u, k, a, b) }
 
 func (v *validator) segments(segs []Segment) {
 	for i, s := range segs {
@@ -988,8 +982,36 @@ func (v *validator) atOnePoint(a, b float64) string {
 	return "are both at x = " + v.num(units.Position, b)
 }
 
-// fmtMetres prints a position for messages of the solvers, e.g. "3.2 m".
-func fmtMetres(x float64) string { return fmtNumber(x) + " m" }
+// fmtMetres prints a position in m, for the messages of the mesh checks,
+// which tell a caller of the package what it got wrong, e.g. "3.2 m".
+func fmtMetres(x float64) string { return quote(units.Base, units.Position, x) }
+
+// messageUnits are the units messages quote values in: u, or SI base
+// units, as a file holds them, for units of no name (the zero System).
+func messageUnits(u units.System) units.System {
+	if u.Name == "" {
+		return units.Base
+	}
+	return u
+}
+
+// quote prints x, an SI value of kind k, in u's unit of k with up to six
+// significant digits (fmtNumber): "3.2 m", "10.5 ft".
+func quote(u units.System, k units.Kind, x float64) string {
+	return quoteDigits(u, k, x, 6)
+}
+
+// quoteDigits is quote with up to digits significant digits (fmtDigits).
+func quoteDigits(u units.System, k units.Kind, x float64, digits int) string {
+	return fmtDigits(u.ToDisplay(k, x), digits) + " " + u.Unit(k).Symbol
+}
+
+// quotePair is quote for two SI values of kind k, with the fewest digits
+// that tell them apart in u (fmtPair).
+func quotePair(u units.System, k units.Kind, a, b float64) (string, string) {
+	digits := digitsApart([]float64{u.ToDisplay(k, a), u.ToDisplay(k, b)})
+	return quoteDigits(u, k, a, digits), quoteDigits(u, k, b, digits)
+}
 
 // fmtPowerOfTen prints 10^e, for e = log10 of a value that may lie outside
 // float64's range, with two significant digits, e.g. "1.6e-326".

@@ -34,7 +34,7 @@ func TestConvergenceTheoryOfShearDeformation(t *testing.T) {
 		Supports:        []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 3, Kind: fem.Roller}},
 		DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -40e3}, {X: 3, Intensity: -40e3}}}},
 	}
-	table, err := study.Convergence(context.Background(), &m, 64)
+	table, err := study.Convergence(context.Background(), &m, 64, units.Base)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -25,6 +25,9 @@ type InfluenceRequest struct {
 	FiniteElements bool
 	// Envelope asks for every train's envelope at every station.
 	Envelope bool
+	// Units are the units the messages quote values in; the zero System
+	// for SI base units, as a file holds them.
+	Units units.System
 }
 
 // MovingLoads is the influence line of one target of a project, and what
@@ -53,7 +56,7 @@ type InfluenceSample struct {
 // worst positions of each of p's trains for it (and their envelopes when
 // asked).
 func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
-	member, in, err := InfluenceOf(p)
+	member, in, err := InfluenceOf(p, r.Units)
 	if err != nil {
 		return nil, err
 	}
@@ -100,7 +103,7 @@ func Influence(p *storage.Project, r InfluenceRequest) (*MovingLoads, error) {
 	if !target.Bending() {
 		target = nil // a train loads across: nothing to say of an axial target
 	}
-	out.Trains = trainResults(p, in, out.Mesh, target, r.Envelope)
+	out.Trains = trainResults(p, in, out.Mesh, target, r.Envelope, r.Units)
 	return out, nil
 }
 

@@ -155,7 +155,7 @@ func (src Source) trains() []TrainResult {
 	if src.Trains != nil {
 		return src.Trains
 	}
-	return solveTrains(src.Project)
+	return solveTrains(src.Project, src.Units)
 }
 
 // UnitSystem is the display unit system a project names, SI when it names none.

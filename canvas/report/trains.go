@@ -84,8 +84,8 @@ type QuantityWorst struct {
 
 // trainResults places every train of p on the member of in: its extremes
 // of target when one is given, and its envelope when asked; a train that
-// cannot be worked out carries why.
-func trainResults(p *storage.Project, in *moving.Influence, mesh fem.Mesh, target *moving.Target, envelope bool) []TrainResult {
+// cannot be worked out carries why, its values in u.
+func trainResults(p *storage.Project, in *moving.Influence, mesh fem.Mesh, target *moving.Target, envelope bool, u units.System) []TrainResult {
 	var out []TrainResult
 	// The combinations solved with every span share, once for every train
 	// that a combination takes.
@@ -93,7 +93,7 @@ func trainResults(p *storage.Project, in *moving.Influence, mesh fem.Mesh, targe
 	for i := range p.Trains {
 		t := &p.Trains[i]
 		tr := TrainResult{Train: *t, Label: t.Label(i)}
-		if err := trainResult(p, i, in, mesh, target, envelope, arranged, &tr); err != nil {
+		if err := trainResult(p, i, in, mesh, target, envelope, arranged, &tr, u); err != nil {
 			// The train's own: the others are worked out all the same (an
 			// axle of 1e300 N on one train had every train of the file
 			// reported as not placed).
@@ -106,11 +106,12 @@ func trainResults(p *storage.Project, in *moving.Influence, mesh fem.Mesh, targe
 
 // trainResult works out train i of p into tr: its worst positions for
 // target, when not nil, and its envelope with the combinations that take
-// it, when envelope (arranged solves the combinations for them).
+// it, when envelope (arranged solves the combinations for them). Why a
+// train does not fit quotes its values in u.
 func trainResult(p *storage.Project, i int, in *moving.Influence, mesh fem.Mesh, target *moving.Target, envelope bool,
-	arranged func() (*fem.CombinationSolutions, error), tr *TrainResult) error {
+	arranged func() (*fem.CombinationSolutions, error), tr *TrainResult, u units.System) error {
 	t := &p.Trains[i]
-	if err := t.Check(p.Model.Length(), i, units.Base); err != nil {
+	if err := t.Check(p.Model.Length(), i, u); err != nil {
 		return err
 	}
 	if target != nil {
@@ -368,23 +369,25 @@ func onRun(t *moving.Train, p moving.Placement, L float64) bool {
 
 // TrainEnvelopes are the envelopes of every train of p, each extreme
 // checked by finite elements at its governing position: what the solve
-// command can add to its JSON as "trains" (TrainsJSON).
-func TrainEnvelopes(p *storage.Project) ([]TrainResult, error) {
-	member, in, err := InfluenceOf(p)
+// command can add to its JSON as "trains" (TrainsJSON). Its messages
+// quote values in u; units of no name (the zero System) are SI base
+// units, as a file holds them.
+func TrainEnvelopes(p *storage.Project, u units.System) ([]TrainResult, error) {
+	member, in, err := InfluenceOf(p, u)
 	if err != nil {
 		return nil, err
 	}
-	return trainResults(p, in, member.Mesh(), nil, true), nil
+	return trainResults(p, in, member.Mesh(), nil, true, u), nil
 }
 
 // solveTrains are the envelopes of p's trains for the solve command, each
 // train alone on the member without its own loads; when the member's
-// influence lines cannot be set up, every train carries why.
-func solveTrains(p *storage.Project) []TrainResult {
+// influence lines cannot be set up, every train carries why, in u.
+func solveTrains(p *storage.Project, u units.System) []TrainResult {
 	if p == nil || len(p.Trains) == 0 {
 		return nil
 	}
-	rs, err := TrainEnvelopes(p)
+	rs, err := TrainEnvelopes(p, u)
 	if err == nil {
 		return rs
 	}
@@ -396,9 +399,11 @@ func solveTrains(p *storage.Project) []TrainResult {
 }
 
 // InfluenceOf prepares the member of p and sets up its influence lines:
-// the member every command and the window's moving loads work on.
-func InfluenceOf(p *storage.Project) (*fem.Member, *moving.Influence, error) {
-	member, err := fem.Prepare(&p.Model)
+// the member every command and the window's moving loads work on. fem's
+// messages quote values in u (fem.PrepareIn); units of no name (the zero
+// System) are SI base units.
+func InfluenceOf(p *storage.Project, u units.System) (*fem.Member, *moving.Influence, error) {
+	member, err := fem.PrepareIn(&p.Model, u)
 	if err != nil {
 		return nil, nil, err
 	}
@@ -408,7 +413,7 @@ func InfluenceOf(p *storage.Project) (*fem.Member, *moving.Influence, error) {
 		// nearest node needs nodes along the whole member.
 		m := p.Model.Clone()
 		m.Mesh.Elements = influenceElements
-		if member, err = fem.Prepare(&m); err != nil {
+		if member, err = fem.PrepareIn(&m, u); err != nil {
 			return nil, nil, err
 		}
 	}

@@ -41,7 +41,7 @@ func TestTrainInACombination(t *testing.T) {
 		t.Fatalf("saved and loaded, the combination takes trains %+v, want the trolley at 1.5", cb.Trains)
 	}
 
-	rs, err := TrainEnvelopes(p)
+	rs, err := TrainEnvelopes(p, units.Base)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -155,7 +155,7 @@ func TestTrainPeaksBetweenStations(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	rs, err := TrainEnvelopes(p)
+	rs, err := TrainEnvelopes(p, units.Base)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -478,7 +478,7 @@ func TestTrainCombinationTakesTheWorstArrangement(t *testing.T) {
 			want, wantAt = v, a
 		}
 	}
-	rs, err := TrainEnvelopes(p)
+	rs, err := TrainEnvelopes(p, units.Base)
 	if err != nil {
 		t.Fatal(err)
 	}

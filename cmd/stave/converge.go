@@ -40,8 +40,11 @@ func convergeCommand(args []string, stdout io.Writer) error {
 	if err != nil {
 		return modelError{err}
 	}
+	if sys.Name == "" {
+		sys = report.UnitSystem(p.View.Units)
+	}
 	ctx := context.Background()
-	table, err := study.Convergence(ctx, &p.Model, *maxPer)
+	table, err := study.Convergence(ctx, &p.Model, *maxPer, sys)
 	if tf := (study.TooFineError{}); errors.As(err, &tf) {
 		if tf.Fits < 1 {
 			return usageError{fmt.Sprintf("--max %d: %s: %v", *maxPer, path, err)}
@@ -54,16 +57,14 @@ func convergeCommand(args []string, stdout io.Writer) error {
 	var versus *study.Versus
 	var uniformErr error
 	if *target > 0 {
-		v, err := study.AgainstUniform(ctx, &p.Model, *target, 100000, 100000)
+		v, err := study.AgainstUniform(ctx, &p.Model, *target, 100000, 100000, sys)
 		if err != nil && len(v.Adaptive.Iterations) == 0 {
 			return modelError{fmt.Errorf("%s: %w", path, err)}
 		}
 		versus, uniformErr = &v, err
 	}
 	r := report.Request(p, nil)
-	if sys.Name != "" {
-		r.Checks.Units = sys
-	}
+	r.Checks.Units = sys
 	a, err := analysis.Run(ctx, r)
 	if err != nil {
 		return err

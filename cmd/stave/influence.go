@@ -71,7 +71,7 @@ func influenceCommand(args []string, stdout io.Writer) error {
 	case set(fs, "train") && *train > n:
 		return usageError{fmt.Sprintf("--train %d: %s has %s; count them from 1 along the file", *train, path, units.Count(n, "train"))}
 	}
-	r, err := report.Influence(p, report.InfluenceRequest{Target: target, Points: *points, FiniteElements: true, Envelope: *envelope || *out != "" || *sheet != ""})
+	r, err := report.Influence(p, report.InfluenceRequest{Target: target, Points: *points, FiniteElements: true, Envelope: *envelope || *out != "" || *sheet != "", Units: sys})
 	if err != nil {
 		return modelError{fmt.Errorf("%s: %w", path, err)}
 	}

@@ -561,7 +561,13 @@ func TestBenchQuickPipelineOnly(t *testing.T) {
 // roller, w = 10 kN/m down, E = 200 GPa) changed by edit to a file in dir.
 func variant(t *testing.T, dir, name string, edit func(m map[string]any)) string {
 	t.Helper()
-	data, err := os.ReadFile("../../testdata/simply_supported_uniform.json")
+	return variantOf(t, "../../testdata/simply_supported_uniform.json", dir, name, edit)
+}
+
+// variantOf is variant of the model in file.
+func variantOf(t *testing.T, file, dir, name string, edit func(m map[string]any)) string {
+	t.Helper()
+	data, err := os.ReadFile(file)
 	if err != nil {
 		t.Fatal(err)
 	}

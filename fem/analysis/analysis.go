@@ -152,7 +152,7 @@ func Solve(ctx context.Context, r Request) (Analysis, error) {
 		solveCases(&a, r)
 		return a, nil
 	}
-	p, err := fem.Prepare(&a.Model)
+	p, err := fem.PrepareIn(&a.Model, a.Units)
 	if err != nil {
 		a.Err = err
 		return a, nil

@@ -139,7 +139,7 @@ func (s Show) Title(m *fem.Model) string {
 // combination solved, and the shown case or combination as a.Solution
 // (the first combination for the envelope).
 func solveCases(a *Analysis, r Request) {
-	p, err := fem.Prepare(&a.Model)
+	p, err := fem.PrepareIn(&a.Model, a.Units)
 	if err != nil {
 		a.Err = err
 		return
@@ -334,7 +334,7 @@ func (c *Cases) arranger(a *Analysis) (*Cases, int) {
 	m := a.Model.Clone()
 	m.Combinations = []fem.Combination{{Name: m.Cases[s.Index].Name, Kind: fem.OtherCombination,
 		Factors: []fem.CaseFactor{{Case: s.Index, Factor: 1}}}}
-	p, err := fem.Prepare(&m)
+	p, err := fem.PrepareIn(&m, a.Units)
 	if err != nil {
 		return nil, 0
 	}

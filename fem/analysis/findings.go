@@ -110,10 +110,10 @@ func (a *Analysis) Findings() []Finding {
 			}
 		}
 	}
-	out = append(out, thermalFindings(&a.Model)...)
+	out = append(out, thermalFindings(&a.Model, a.Units)...)
 	out = append(out, selfWeightFindings(&a.Model)...)
-	out = append(out, shearAreaFindings(&a.Model)...)
-	out = append(out, depthFindings(&a.Model)...)
+	out = append(out, shearAreaFindings(&a.Model, a.Units)...)
+	out = append(out, depthFindings(&a.Model, a.Units)...)
 	if a.Solution == nil {
 		return out
 	}
@@ -163,7 +163,8 @@ func (a *Analysis) Findings() []Finding {
 // thermalFindings are the cautions that a temperature load acts on a
 // segment with no coefficient of thermal expansion, where it does nothing:
 // most likely α was left out, since every structural material expands.
-func thermalFindings(m *fem.Model) []Finding {
+// The temperature difference is quoted in u.
+func thermalFindings(m *fem.Model, u units.System) []Finding {
 	change := m.TemperatureChange != 0
 	for _, c := range m.Cases {
 		change = change || c.TemperatureChange != 0
@@ -178,7 +179,7 @@ func thermalFindings(m *fem.Model) []Finding {
 			loads = append(loads, "the temperature change")
 		}
 		if s.TemperatureDifference != 0 {
-			loads = append(loads, fmt.Sprintf("its temperature difference of %s K through the depth", units.FormatNumber(s.TemperatureDifference)))
+			loads = append(loads, fmt.Sprintf("its temperature difference of %s through the depth", u.Format(units.TemperatureChange, s.TemperatureDifference)))
 		}
 		if len(loads) == 0 {
 			continue
@@ -207,12 +208,12 @@ func selfWeightFindings(m *fem.Model) []Finding {
 // an I-section; Timoshenko's shear coefficient, from memory), so a larger
 // one is most likely in the wrong units, and it hides the shear deflection;
 // and that a segment gives a shear area or κ but does not deform in shear,
-// so they are not used.
-func shearAreaFindings(m *fem.Model) []Finding {
+// so they are not used. The areas are quoted in u.
+func shearAreaFindings(m *fem.Model, u units.System) []Finding {
 	var out []Finding
 	for i, s := range m.Segments {
 		as := s.Section.ShearArea
-		what := fmt.Sprintf("shear area %s m²", units.FormatNumber(as))
+		what := "shear area " + u.Format(units.Area, as)
 		if as == 0 {
 			as = s.Section.ShearCoefficient * s.Section.Area
 			what = fmt.Sprintf("shear coefficient κ = %s", units.FormatNumber(s.Section.ShearCoefficient))
@@ -222,7 +223,7 @@ func shearAreaFindings(m *fem.Model) []Finding {
 		case !s.ShearDeformation && as > 0:
 			msg = fmt.Sprintf("Segment %d gives a %s but does not deform in shear, so it is not used: turn on shear deformation for the segment to add the shear deflection, or leave the shear properties out.", i+1, what)
 		case s.ShearDeformation && as > s.Section.Area:
-			msg = fmt.Sprintf("Segment %d deforms in shear with a %s, more than its cross-section area of %s m²: the area carrying the shear is a part of the section (κ = 5/6 for a solid rectangle, about the web's share for an I-section), so check its units; too large a one leaves out shear deflection.", i+1, what, units.FormatNumber(s.Section.Area))
+			msg = fmt.Sprintf("Segment %d deforms in shear with a %s, more than its cross-section area of %s: the area carrying the shear is a part of the section (κ = 5/6 for a solid rectangle, about the web's share for an I-section), so check its units; too large a one leaves out shear deflection.", i+1, what, u.Format(units.Area, s.Section.Area))
 		default:
 			continue
 		}
@@ -238,8 +239,9 @@ func shearAreaFindings(m *fem.Model) []Finding {
 // fibre lies outside the section; beyond 2c the other face is farther
 // than c, and M·c/I understates the stress there. Either may be a typing
 // error in h or in c, so the model is solved as entered and the caution
-// says which to check.
-func depthFindings(m *fem.Model) []Finding {
+// says which to check. The lengths are quoted in u.
+func depthFindings(m *fem.Model, u units.System) []Finding {
+	dim := func(v float64) string { return u.Format(units.Dimension, v) }
 	var out []Finding
 	const slack = 1e-9 // for values entered to a few figures
 	for i, s := range m.Segments {
@@ -249,9 +251,9 @@ func depthFindings(m *fem.Model) []Finding {
 		case !(h > 0 && c > 0):
 			continue // no depth given
 		case h < c*(1-slack):
-			msg = fmt.Sprintf("Segment %d's depth h = %s m is less than its extreme fibre distance c = %s m, which must lie within the section: check both (c runs from the neutral axis to the farther face).", i+1, units.FormatNumber(h), units.FormatNumber(c))
+			msg = fmt.Sprintf("Segment %d's depth h = %s is less than its extreme fibre distance c = %s, which must lie within the section: check both (c runs from the neutral axis to the farther face).", i+1, dim(h), dim(c))
 		case h > 2*c*(1+slack):
-			msg = fmt.Sprintf("Segment %d's depth h = %s m is more than twice its extreme fibre distance c = %s m, so its other face lies %s m from the neutral axis, farther than c: the bending stress M·c/I understates the stress there. Enter as c the distance to the farther face, or check h (a temperature difference bends the segment over h).", i+1, units.FormatNumber(h), units.FormatNumber(c), units.FormatNumber(h-c))
+			msg = fmt.Sprintf("Segment %d's depth h = %s is more than twice its extreme fibre distance c = %s, so its other face lies %s from the neutral axis, farther than c: the bending stress M·c/I understates the stress there. Enter as c the distance to the farther face, or check h (a temperature difference bends the segment over h).", i+1, dim(h), dim(c), dim(h-c))
 		default:
 			continue
 		}

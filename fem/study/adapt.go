@@ -9,6 +9,7 @@ import (
 	"gonum.org/v1/gonum/mat"
 
 	"stave/fem"
+	"stave/fem/units"
 )
 
 // Iteration is one mesh of an adaptive run.
@@ -48,12 +49,13 @@ const refineFraction = 0.5
 // meshes of a beam on an elastic foundation it is about 0.7 of the truth). It starts from
 // two elements per stretch between key points, so that every patch holds
 // enough superconvergent points for the recovery. It stops with ctx's
-// error, and the iterations so far, when ctx is done before a mesh.
-func Adapt(ctx context.Context, m *fem.Model, target float64, maxElements int) (Adaptive, error) {
+// error, and the iterations so far, when ctx is done before a mesh. fem's
+// messages quote values in u (fem.PrepareIn).
+func Adapt(ctx context.Context, m *fem.Model, target float64, maxElements int, u units.System) (Adaptive, error) {
 	if !(target > 0) {
 		return Adaptive{}, fmt.Errorf("adaptive refinement: the target error must be positive, got %g", target)
 	}
-	exact, keys, err := prepare(m, "adaptive refinement")
+	exact, keys, err := prepare(m, "adaptive refinement", u)
 	if err != nil {
 		return Adaptive{}, err
 	}
@@ -66,7 +68,7 @@ func Adapt(ctx context.Context, m *fem.Model, target float64, maxElements int) (
 		if err := ctx.Err(); err != nil {
 			return out, err
 		}
-		s, err := solveOn(m, nodes)
+		s, err := solveOn(m, nodes, u)
 		if err != nil {
 			return out, err
 		}
@@ -247,9 +249,9 @@ const sameError = 1e-9
 // mesh (every stretch divided in proportion to its length, as BuildMesh
 // does) needs to reach the same true error (to sameError), searching up to
 // maxUniform elements. It stops with ctx's error when ctx is done before a
-// mesh.
-func AgainstUniform(ctx context.Context, m *fem.Model, target float64, maxElements, maxUniform int) (Versus, error) {
-	a, err := Adapt(ctx, m, target, maxElements)
+// mesh. fem's messages quote values in u (fem.PrepareIn).
+func AgainstUniform(ctx context.Context, m *fem.Model, target float64, maxElements, maxUniform int, u units.System) (Versus, error) {
+	a, err := Adapt(ctx, m, target, maxElements, u)
 	if err != nil {
 		return Versus{}, err
 	}
@@ -260,7 +262,11 @@ func AgainstUniform(ctx context.Context, m *fem.Model, target float64, maxElemen
 		v.Exact = true
 		return v, nil
 	}
-	exact, err := fem.SolveExact(m)
+	p, err := fem.PrepareIn(m, u)
+	if err != nil {
+		return v, err
+	}
+	exact, err := p.Exact()
 	if err != nil {
 		return v, err
 	}
@@ -273,7 +279,11 @@ func AgainstUniform(ctx context.Context, m *fem.Model, target float64, maxElemen
 		}
 		um := *m
 		um.Mesh = fem.MeshSettings{Elements: n, BarOrder: m.Mesh.BarOrder}
-		s, err := fem.Solve(&um)
+		p, err := fem.PrepareIn(&um, u)
+		if err != nil {
+			return 0, 0, 0, err
+		}
+		s, err := p.Solve(p.Mesh())
 		if err != nil {
 			return 0, 0, 0, err
 		}

@@ -104,12 +104,13 @@ const rateAgreement = 0.25
 
 // Convergence solves m with 1, 2, 4, ... up to maxPerStretch elements in
 // every stretch between key points and compares each with the exact solution.
-// It stops with ctx's error when ctx is done before a mesh.
-func Convergence(ctx context.Context, m *fem.Model, maxPerStretch int) (Table, error) {
+// It stops with ctx's error when ctx is done before a mesh. fem's messages
+// quote values in u (fem.PrepareIn).
+func Convergence(ctx context.Context, m *fem.Model, maxPerStretch int, u units.System) (Table, error) {
 	if maxPerStretch < 1 {
 		return Table{}, fmt.Errorf("convergence study: the finest mesh must have at least 1 element per stretch, got %d", maxPerStretch)
 	}
-	exact, keys, err := prepare(m, "convergence study")
+	exact, keys, err := prepare(m, "convergence study", u)
 	if err != nil {
 		return Table{}, err
 	}
@@ -129,7 +130,7 @@ func Convergence(ctx context.Context, m *fem.Model, maxPerStretch int) (Table, e
 		if err := ctx.Err(); err != nil {
 			return Table{}, err
 		}
-		s, err := solveOn(m, Subdivide(keys, k))
+		s, err := solveOn(m, Subdivide(keys, k), u)
 		if err != nil {
 			return Table{}, fmt.Errorf("convergence study, %d elements per stretch: %w", k, err)
 		}
@@ -217,9 +218,13 @@ func fittedRate(rows []Row, value func(Row) float64) float64 {
 
 // prepare solves m exactly and returns the nodes every mesh of m must
 // hold (one element per stretch between key points); what names the study
-// in errors.
-func prepare(m *fem.Model, what string) (*fem.Exact, []float64, error) {
-	exact, err := fem.SolveExact(m)
+// in errors, whose values fem quotes in u.
+func prepare(m *fem.Model, what string, u units.System) (*fem.Exact, []float64, error) {
+	p, err := fem.PrepareIn(m, u)
+	if err != nil {
+		return nil, nil, fmt.Errorf("%s needs the exact solution: %w", what, err)
+	}
+	exact, err := p.Exact()
 	if err != nil {
 		return nil, nil, fmt.Errorf("%s needs the exact solution: %w", what, err)
 	}
@@ -275,10 +280,16 @@ func fits(m *fem.Model, k, n int) error {
 	return um.Validate()
 }
 
-func solveOn(m *fem.Model, nodes []float64) (*fem.Solution, error) {
-	mesh, err := fem.MeshFromNodes(m, nodes)
+// solveOn solves m on a mesh of nodes and the key points (fem.MeshFromNodes),
+// fem's messages quoting values in u.
+func solveOn(m *fem.Model, nodes []float64, u units.System) (*fem.Solution, error) {
+	p, err := fem.PrepareIn(m, u)
 	if err != nil {
 		return nil, err
 	}
-	return fem.SolveOnMesh(m, mesh)
+	mesh, err := p.MeshOn(nodes)
+	if err != nil {
+		return nil, err
+	}
+	return p.Solve(mesh)
 }

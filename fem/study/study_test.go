@@ -9,6 +9,7 @@ import (
 	"testing"
 
 	"stave/fem"
+	"stave/fem/units"
 )
 
 func member(length float64, supports []fem.Support) fem.Model {
@@ -69,7 +70,7 @@ func smoothModels() []struct {
 // from memory).
 func TestConvergenceRates(t *testing.T) {
 	for _, c := range smoothModels() {
-		table, err := Convergence(context.Background(), &c.model, 32)
+		table, err := Convergence(context.Background(), &c.model, 32, units.Base)
 		if err != nil {
 			t.Fatalf("%s: %v", c.name, err)
 		}
@@ -103,7 +104,7 @@ func TestConvergenceRatesOfTheAsymptoticRows(t *testing.T) {
 	m.DistributedLoad = []fem.DistributedLoad{
 		{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 4, Intensity: -10e3}}},
 		{Direction: fem.Axial, Points: []fem.LoadPoint{{X: 0, Intensity: 5e3}, {X: 4, Intensity: 5e3}}}}
-	table, err := Convergence(context.Background(), &m, 1024)
+	table, err := Convergence(context.Background(), &m, 1024, units.Base)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -158,7 +159,7 @@ func groundBeam() fem.Model {
 // rate.
 func TestConvergenceRatesAboveTheRoundOffOfEachMesh(t *testing.T) {
 	m := groundBeam()
-	table, err := Convergence(context.Background(), &m, 64)
+	table, err := Convergence(context.Background(), &m, 64, units.Base)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -184,7 +185,7 @@ func TestConvergenceRatesAboveTheRoundOffOfEachMesh(t *testing.T) {
 func TestConvergenceExactForTheModel(t *testing.T) {
 	m := member(4, []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 3, Kind: fem.Roller}})
 	m.PointLoads = []fem.PointLoad{{X: 1.5, Transverse: -20e3, Axial: 5e3}, {X: 4, Moment: 3e3}}
-	table, err := Convergence(context.Background(), &m, 64)
+	table, err := Convergence(context.Background(), &m, 64, units.Base)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -196,7 +197,7 @@ func TestConvergenceExactForTheModel(t *testing.T) {
 			t.Errorf("a rate %+v was measured on round-off", r)
 		}
 	}
-	v, err := AgainstUniform(context.Background(), &m, 0.01, 1000, 1000)
+	v, err := AgainstUniform(context.Background(), &m, 0.01, 1000, 1000, units.Base)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -210,7 +211,7 @@ func TestConvergenceExactForTheModel(t *testing.T) {
 // Zhu 1992 report values approaching 1 under refinement; from memory).
 func TestEffectivityOnSmoothProblems(t *testing.T) {
 	for _, c := range smoothModels() {
-		a, err := Adapt(context.Background(), &c.model, 1e-3, 2000)
+		a, err := Adapt(context.Background(), &c.model, 1e-3, 2000, units.Base)
 		if err != nil {
 			t.Fatalf("%s: %v", c.name, err)
 		}
@@ -239,7 +240,7 @@ func TestAdaptiveBeatsUniform(t *testing.T) {
 	m.DistributedLoad = []fem.DistributedLoad{{Direction: fem.Transverse,
 		Points: []fem.LoadPoint{{X: 6.5, Intensity: -5e3}, {X: 7.5, Intensity: -25e3}, {X: 9, Intensity: -8e3}}}}
 	const target = 2e-4
-	v, err := AgainstUniform(context.Background(), &m, target, 5000, 200000)
+	v, err := AgainstUniform(context.Background(), &m, target, 5000, 200000, units.Base)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -266,7 +267,7 @@ func TestUniformMatchesAnAdaptiveMeshThatIsUniform(t *testing.T) {
 	m := member(L, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L, Kind: fem.Roller}})
 	m.DistributedLoad = []fem.DistributedLoad{{Direction: fem.Transverse,
 		Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: L, Intensity: -10e3}}}}
-	v, err := AgainstUniform(context.Background(), &m, 0.003, 1000, 1000)
+	v, err := AgainstUniform(context.Background(), &m, 0.003, 1000, 1000, units.Base)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -297,7 +298,7 @@ func TestAgainstUniformExactOnlyFromTheFirstMesh(t *testing.T) {
 			if c.q != 0 {
 				m.DistributedLoad = []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: c.q}, {X: 4, Intensity: c.q}}}}
 			}
-			v, err := AgainstUniform(context.Background(), &m, 1e-300, 64, 1000)
+			v, err := AgainstUniform(context.Background(), &m, 1e-300, 64, 1000, units.Base)
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -314,7 +315,7 @@ func TestAgainstUniformExactOnlyFromTheFirstMesh(t *testing.T) {
 func TestInvalidRequests(t *testing.T) {
 	m := member(4, []fem.Support{{X: 0, Kind: fem.Fixed}})
 	m.PointLoads = []fem.PointLoad{{X: 4, Transverse: -1e3}}
-	if _, err := Convergence(context.Background(), &m, 0); err == nil {
+	if _, err := Convergence(context.Background(), &m, 0, units.Base); err == nil {
 		t.Error("Convergence with 0 elements per stretch accepted")
 	}
 	// A finest mesh that would not fit in memory is refused before any
@@ -326,7 +327,7 @@ func TestInvalidRequests(t *testing.T) {
 	// for a model's own mesh (fewer elements, a longer maximum element
 	// length), which does not bear on a study. (The study's own contract;
 	// no check value of its own.)
-	_, err := Convergence(context.Background(), &m, 1_000_000_000)
+	_, err := Convergence(context.Background(), &m, 1_000_000_000, units.Base)
 	var tf TooFineError
 	if err == nil || !strings.Contains(err.Error(), "the finest mesh of 536870912 elements per stretch: it would not fit in memory") || !errors.As(err, &tf) {
 		t.Errorf("Convergence up to 10⁹ elements per stretch: %v (%T)", err, err)
@@ -339,10 +340,10 @@ func TestInvalidRequests(t *testing.T) {
 			t.Errorf("the refusal %q should say %q, and not the loader's advice for a model's mesh", err, want)
 		}
 	}
-	if _, err := Adapt(context.Background(), &m, 0, 100); err == nil {
+	if _, err := Adapt(context.Background(), &m, 0, 100, units.Base); err == nil {
 		t.Error("Adapt with target 0 accepted")
 	}
-	if _, err := Adapt(context.Background(), &m, 0.01, 1); err == nil {
+	if _, err := Adapt(context.Background(), &m, 0.01, 1, units.Base); err == nil {
 		t.Error("Adapt with fewer elements allowed than it starts from accepted")
 	}
 }
@@ -354,13 +355,13 @@ func TestCancelled(t *testing.T) {
 	m.PointLoads = []fem.PointLoad{{X: 4, Transverse: -1e3}}
 	ctx, cancel := context.WithCancel(context.Background())
 	cancel()
-	if _, err := Convergence(ctx, &m, 64); !errors.Is(err, context.Canceled) {
+	if _, err := Convergence(ctx, &m, 64, units.Base); !errors.Is(err, context.Canceled) {
 		t.Errorf("Convergence: %v, want %v", err, context.Canceled)
 	}
-	if a, err := Adapt(ctx, &m, 1e-6, 100000); !errors.Is(err, context.Canceled) || len(a.Iterations) != 0 {
+	if a, err := Adapt(ctx, &m, 1e-6, 100000, units.Base); !errors.Is(err, context.Canceled) || len(a.Iterations) != 0 {
 		t.Errorf("Adapt: %v after %d meshes, want %v before the first", err, len(a.Iterations), context.Canceled)
 	}
-	if _, err := AgainstUniform(ctx, &m, 1e-6, 100000, 100000); !errors.Is(err, context.Canceled) {
+	if _, err := AgainstUniform(ctx, &m, 1e-6, 100000, 100000, units.Base); !errors.Is(err, context.Canceled) {
 		t.Errorf("AgainstUniform: %v, want %v", err, context.Canceled)
 	}
 }
@@ -382,7 +383,7 @@ func TestAdaptReachedMeansTheTrueError(t *testing.T) {
 	m.Foundations = []fem.Foundation{{Start: 0, End: L, Modulus: modulus}}
 	m.PointLoads = []fem.PointLoad{{X: L / 2, Transverse: -100e3}}
 	for _, target := range []float64{0.9, 0.6, 0.3, 0.05} {
-		a, err := Adapt(context.Background(), &m, target, 20000)
+		a, err := Adapt(context.Background(), &m, target, 20000, units.Base)
 		if err != nil {
 			t.Fatalf("target %g: %v", target, err)
 		}
@@ -408,7 +409,7 @@ func TestAdaptReachedMeansTheTrueError(t *testing.T) {
 // stopped at or says it met its own round-off first.
 func TestAdaptStopsAtRoundOff(t *testing.T) {
 	m := groundBeam()
-	v, err := AgainstUniform(context.Background(), &m, 1e-7, 100000, 100000)
+	v, err := AgainstUniform(context.Background(), &m, 1e-7, 100000, 100000, units.Base)
 	a := v.Adaptive
 	if len(a.Iterations) == 0 {
 		t.Fatalf("no adaptive mesh: %v", err)
@@ -423,5 +424,32 @@ func TestAdaptStopsAtRoundOff(t *testing.T) {
 	}
 	if err != nil && !strings.Contains(err.Error(), "round-off") {
 		t.Errorf("uniform refinement: %v, want it to reach the adaptive error or stop at its round-off", err)
+	}
+}
+
+// A study of a model the supports leave free says so with the place in
+// the units it is given: a beam on one pin at x = 3.048 m, 10 ft exactly
+// (NIST SP 811 (2008), Appendix B: 1 ft = 0.3048 m), rotates about it.
+func TestStudyRefusalInDisplayUnits(t *testing.T) {
+	m := member(6, []fem.Support{{X: 3.048, Kind: fem.Pinned}})
+	ctx := context.Background()
+	for _, c := range []struct {
+		name string
+		run  func(u units.System) error
+		what string
+	}{
+		{"convergence", func(u units.System) error { _, err := Convergence(ctx, &m, 4, u); return err }, "convergence study"},
+		{"adaptive", func(u units.System) error { _, err := Adapt(ctx, &m, 0.01, 100, u); return err }, "adaptive refinement"},
+		{"against uniform", func(u units.System) error { _, err := AgainstUniform(ctx, &m, 0.01, 100, 100, u); return err }, "adaptive refinement"},
+	} {
+		for _, v := range []struct {
+			u     units.System
+			place string
+		}{{units.USCustomary, "10.0 ft"}, {units.SI, "3.048 m"}, {units.Base, "3.048 m"}} {
+			want := c.what + " needs the exact solution: the member can rotate about the support at x = " + v.place + ": add a second support or fix one end"
+			if err := c.run(v.u); err == nil || !strings.HasPrefix(err.Error(), want) {
+				t.Errorf("%s in %s: got %v, want %q", c.name, v.u.Name, err, want)
+			}
+		}
 	}
 }

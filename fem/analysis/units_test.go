@@ -1,0 +1,58 @@
+package analysis
+
+import (
+	"context"
+	"strings"
+	"testing"
+
+	"stave/fem"
+	"stave/fem/check"
+	"stave/fem/units"
+)
+
+// The cautions on a segment's section and temperature load quote its
+// values in the analysis' display units, as the checks do. Factors exact,
+// NIST SP 811 (2008), Appendix B: 1 in = 0.0254 m, so 1 in² = 6.4516e-4
+// m², and a difference of 1 °F is 5/9 K.
+func TestSectionFindingsInDisplayUnits(t *testing.T) {
+	const in = 0.0254
+	seg := fem.Segment{Start: 0, End: 3, TemperatureDifference: 10, // no α: the caution
+		Section:  fem.Section{Area: 0.01, SecondMoment: 1e-4, FibreDistance: 6 * in, Depth: 16 * in, ShearArea: 10 * in * in},
+		Material: fem.Material{Elastic: 210e9}}
+	m := fem.Model{Segments: []fem.Segment{seg}, Supports: []fem.Support{{X: 0, Kind: fem.Fixed}},
+		PointLoads: []fem.PointLoad{{X: 3, Transverse: -1e4}}}
+	for _, c := range []struct {
+		u    units.System
+		want []string
+	}{
+		{units.USCustomary, []string{
+			"its temperature difference of 18.00 °F through the depth",
+			"Segment 1 gives a shear area 10.00 in² but does not deform in shear",
+			"Segment 1's depth h = 16.00 in is more than twice its extreme fibre distance c = 6.000 in, so its other face lies 10.00 in from the neutral axis",
+		}},
+		{units.SI, []string{
+			"its temperature difference of 10.00 K through the depth",
+			"Segment 1 gives a shear area 6452 mm² but does not deform in shear",
+			"Segment 1's depth h = 406.4 mm is more than twice its extreme fibre distance c = 152.4 mm, so its other face lies 254.0 mm from the neutral axis",
+		}},
+	} {
+		opts := check.DefaultOptions()
+		opts.Units = c.u
+		a, err := Run(context.Background(), Request{Model: m, Checks: opts})
+		if err != nil {
+			t.Fatal(err)
+		}
+		var said []string
+		for _, f := range a.Findings() {
+			if f.Code == CodeMaterial {
+				said = append(said, f.Message)
+			}
+		}
+		all := strings.Join(said, "\n")
+		for _, w := range c.want {
+			if !strings.Contains(all, w) {
+				t.Errorf("in %s the cautions lack %q:\n%s", c.u.Name, w, all)
+			}
+		}
+	}
+}
