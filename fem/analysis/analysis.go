@@ -187,8 +187,10 @@ func Finish(ctx context.Context, r Request, a Analysis) (Analysis, error) {
 	} else if a.prepared != nil {
 		a.Exact, a.ExactErr = a.prepared.exact()
 		a.prepared = nil
+	} else if p, err := fem.PrepareIn(&a.Model, a.Units); err != nil {
+		a.ExactErr = err // the model's own fault, as Solve found it
 	} else {
-		a.Exact, a.ExactErr = fem.SolveExact(&a.Model)
+		a.Exact, a.ExactErr = p.Exact()
 	}
 	if err := ctx.Err(); err != nil {
 		return a, err

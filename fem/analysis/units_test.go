@@ -56,3 +56,30 @@ func TestSectionFindingsInDisplayUnits(t *testing.T) {
 		}
 	}
 }
+
+// A model its validation refuses is refused alike by both stages, in the
+// display units: the exact solution's error is the finite element one's,
+// not the same fault quoted again in SI base units.
+func TestRefusedModelExactErrorInDisplayUnits(t *testing.T) {
+	seg := fem.Segment{Start: 0, End: 3,
+		Section:  fem.Section{Area: 0.01, SecondMoment: 1e-4, FibreDistance: 0.1},
+		Material: fem.Material{Elastic: 210e9}}
+	m := fem.Model{Segments: []fem.Segment{seg}, Supports: []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 6.096, Kind: fem.Roller}},
+		PointLoads: []fem.PointLoad{{X: 3, Transverse: -1e4}}}
+	opts := check.DefaultOptions()
+	opts.Units = units.USCustomary
+	a, err := Run(context.Background(), Request{Model: m, Checks: opts})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if a.Err == nil || a.ExactErr == nil {
+		t.Fatalf("a support beyond the member's end was not refused: %v, %v", a.Err, a.ExactErr)
+	}
+	// 6.096 m = 20 ft exactly (NIST SP 811 (2008), Appendix B: 1 ft = 0.3048 m).
+	if !strings.Contains(a.Err.Error(), "20") || !strings.Contains(a.Err.Error(), "ft") {
+		t.Errorf("the refusal %q does not quote the support's place in feet", a.Err)
+	}
+	if a.ExactErr.Error() != a.Err.Error() {
+		t.Errorf("the exact solution's refusal\n%q\ndiffers from the finite element one's\n%q", a.ExactErr, a.Err)
+	}
+}
