@@ -267,7 +267,7 @@ func contains(list []string, s string) bool {
 
 // number reads a number in unit (for messages); absent optional numbers are 0.
 func (f *fields) number(key, unit string, required bool) float64 {
-	v := f.get(key, required, fmt.Sprintf("%q with a number in %s", key, unit))
+	v := f.get(key, required, fmt.Sprintf("%q with a number %s", key, inUnit(unit)))
 	return f.r.number(join(f.path, key), v, unit)
 }
 
@@ -276,19 +276,31 @@ func (r *reader) number(path string, v *node, unit string) float64 {
 		return 0
 	}
 	if v.kind != numberNode {
-		r.add(path, "expected a number in %s, found %s", unit, v.describe())
+		r.add(path, "expected a number %s, found %s", inUnit(unit), v.describe())
 		return 0
 	}
 	x, err := strconv.ParseFloat(v.text, 64)
 	if err != nil || math.IsInf(x, 0) {
-		r.add(path, "%s is too large for a number; enter a value in %s", cut(v.text), unit)
+		r.add(path, "%s is too large for a number; enter a value %s", cut(v.text), inUnit(unit))
 		return 0
 	}
 	if x == 0 && nonzeroMantissa(v.text) {
-		r.add(path, "%s is too small for a number and would read as 0; enter 0 if you mean zero, or check the unit (values in %s)", cut(v.text), unit)
+		r.add(path, "%s is too small for a number and would read as 0; enter 0 if you mean zero, or check the unit (values %s)", cut(v.text), inUnit(unit))
 		return 0
 	}
 	return x
+}
+
+// inUnit phrases the unit of a number for a message: "in m²" for a unit,
+// and a description such as "(no unit)" or "a count" in parentheses as it is.
+func inUnit(unit string) string {
+	switch {
+	case strings.HasPrefix(unit, "("):
+		return unit
+	case strings.HasPrefix(unit, "a "):
+		return "(" + unit + ")"
+	}
+	return "in " + unit
 }
 
 // nonzeroMantissa reports whether a JSON number has a digit other than 0

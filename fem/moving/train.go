@@ -309,7 +309,7 @@ func positions(free, step float64) int {
 // DerivedStep is the step taken from the mesh for a train running from
 // from to to, whose front travels free metres: the mean length of the
 // elements there, but not so short that the train takes more than
-// derivedPositions positions.
+// derivedPositions positions, both ends of its run included.
 func DerivedStep(mesh fem.Mesh, from, to, free float64) float64 {
 	count := 0
 	for _, e := range mesh.Elements {
@@ -318,7 +318,7 @@ func DerivedStep(mesh fem.Mesh, from, to, free float64) float64 {
 		}
 	}
 	step := (to - from) / float64(max(count, 1))
-	return max(step, free/derivedPositions)
+	return max(step, free/(derivedPositions-1))
 }
 
 // Placement is one position of a train: the way it faces and the x of its

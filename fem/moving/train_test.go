@@ -634,3 +634,29 @@ func TestWorstOffTheWorstStation(t *testing.T) {
 		})
 	}
 }
+
+// A step taken from the mesh is the mean element length along the run,
+// but gives at most derivedPositions positions, both ends of the run
+// included, as docs/format.md says ("at most 20,000 positions"). The
+// counts follow from that definition (the run divided evenly into steps
+// no longer than the step, both ends counted); no outside source.
+func TestDerivedStepKeepsItsPositions(t *testing.T) {
+	const L, free = 12.0, 10.8 // a 1.2 m train on a 12 m run
+	for _, c := range []struct {
+		elements, want int
+	}{
+		{24, 23},        // 0.5 m: 10.8/0.5 = 21.6, so 22 steps
+		{1000, 901},     // 0.012 m: 900 steps
+		{20000, 18001},  // 0.0006 m: 18,000 steps, under the cap
+		{200000, 20000}, // 0.00006 m would be 180,000 steps: capped
+	} {
+		mesh := fem.Mesh{}
+		for k := range c.elements {
+			mesh.Elements = append(mesh.Elements, fem.Element{Start: L * float64(k) / float64(c.elements), End: L * float64(k+1) / float64(c.elements)})
+		}
+		step := DerivedStep(mesh, 0, L, free)
+		if got := positions(free, step); got != c.want {
+			t.Errorf("%d elements: step %g m gives %d positions, want %d", c.elements, step, got, c.want)
+		}
+	}
+}
