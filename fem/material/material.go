@@ -161,11 +161,11 @@ func densitySlips(u units.System) []slip {
 		case kgm3:
 			out = append(out,
 				mistyped("the unit weight", units.Unit{Symbol: "kN/m³", ToSI: 1000 / fem.StandardGravity}, kgm3).
-					saying("Did you type the unit weight in kN/m³? Density is mass per volume: 78.5 kN/m³ ÷ 9.81 m/s² is 8000 kg/m³."),
+					saying("Did you type the unit weight in kN/m³ where kg/m³ is expected? Density is mass per volume: 78.5 kN/m³ ÷ 9.81 m/s² is 8000 kg/m³."),
 				mistyped("the unit weight", units.Unit{Symbol: "N/m³", ToSI: 1 / fem.StandardGravity}, kgm3).
-					saying("Did you type the unit weight in N/m³? Density is mass per volume: divide it by 9.81 m/s²."),
+					saying("Did you type the unit weight in N/m³ where kg/m³ is expected? Density is mass per volume: divide it by 9.81 m/s²."),
 				mistyped("the density", units.Unit{Symbol: "t/m³", ToSI: 1000}, kgm3).
-					saying("Did you type the density in t/m³ or g/cm³? Multiply by 1000 to get kg/m³."),
+					saying("Did you type the density in t/m³ or g/cm³ where kg/m³ is expected? Multiply by 1000 to get kg/m³."),
 				mistyped("the density", lbft3, kgm3))
 		case lbft3:
 			out = append(out,

@@ -109,6 +109,8 @@ func TestFarFromTypicalIn(t *testing.T) {
 		// 0.284 lb/in³, steel as US metal data sheets give it (from memory).
 		{"US: lb/in³ typed in the lb/ft³ field", us, with(29000*ksi, 0.284*pcf), []string{"lb/in³ where lb/ft³", "1 lb/in³ is 1728 lb/ft³"}, nil},
 		{"US: kg/m³ typed in the lb/ft³ field", us, with(29000*ksi, 7850*pcf), []string{"kg/m³ where lb/ft³"}, nil},
+		// A file holds kg/m³: a unit weight of 78.5 kN/m³ typed there, seen in a US window.
+		{"US: unit weight typed in a file", us, with(29000*ksi, 78.5), []string{"density = 4.901 lb/ft³", "unit weight in kN/m³ where kg/m³ is expected"}, nil},
 		{"US: negative density", us, with(29000*ksi, -1*pcf), []string{"density = -1.000 lb/ft³ must be a finite number"}, nil},
 		{"US: zero modulus", us, with(0, 490*pcf), []string{"E = 0 ksi", "must be a positive number", "about 30000 ksi"}, []string{"Pa"}},
 
