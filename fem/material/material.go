@@ -32,11 +32,8 @@ type Entry struct {
 
 // Typical returns the list of typical materials, a fresh copy each call.
 func Typical() []Entry {
-	const (
-		ksi   = 6894757.293168361 // Pa, NIST SP 811 (2008) B.8
-		lbft3 = 16.01846337396014 // kg/m³ per lb/ft³, NIST SP 811 (2008) B.8
-		perF  = 1.8               // 1/K per 1/°F
-	)
+	us := units.USCustomary // exact factors, NIST SP 811 (2008) Appendix B
+	ksi, lbft3, perF := us.Unit(units.Modulus).ToSI, us.Unit(units.Density).ToSI, us.Unit(units.ThermalExpansion).ToSI
 	return []Entry{
 		{
 			Material: fem.Material{Name: "Structural steel S355 (typical)", Elastic: 210e9, Density: 7850, ThermalExpansion: 12e-6, Allowable: 355e6},
