@@ -103,7 +103,7 @@ func (a *Analysis) Findings() []Finding {
 	}
 	seen := map[string]bool{}
 	for i, s := range a.Model.Segments {
-		for _, msg := range material.FarFromTypical(s.Material) {
+		for _, msg := range material.FarFromTypicalIn(s.Material, a.Units) {
 			if !seen[msg] {
 				seen[msg] = true
 				out = append(out, segmentFinding(s, fmt.Sprintf("material of segment %d", i+1), msg))

@@ -57,6 +57,42 @@ func TestSectionFindingsInDisplayUnits(t *testing.T) {
 	}
 }
 
+// The caution on a material far from typical quotes E in the analysis'
+// display units and names the slip of the field typed into: steel's
+// 29,000 ksi (AISC, from memory) typed in psi. Factors exact, NIST SP 811
+// (2008), Appendix B: 1 lbf = 4.4482216152605 N, 1 in = 0.0254 m.
+func TestMaterialFindingInDisplayUnits(t *testing.T) {
+	const ksi = 1000 * 4.4482216152605 / (0.0254 * 0.0254)
+	seg := fem.Segment{Start: 0, End: 3,
+		Section:  fem.Section{Area: 0.01, SecondMoment: 1e-4, FibreDistance: 0.1},
+		Material: fem.Material{Name: "steel", Elastic: 29e6 * ksi}}
+	m := fem.Model{Segments: []fem.Segment{seg}, Supports: []fem.Support{{X: 0, Kind: fem.Fixed}},
+		PointLoads: []fem.PointLoad{{X: 3, Transverse: -1e4}}}
+	for _, c := range []struct {
+		u    units.System
+		want string
+	}{
+		{units.USCustomary, "steel: E = 2.900e+07 ksi is 1000 times that of typical steel (29000 ksi). Did you type a value in psi where ksi is expected?"},
+		{units.SI, "steel: E = 199900 GPa is 1000 times that of typical steel (199.9 GPa). Did you type a value in MPa where GPa is expected?"},
+	} {
+		opts := check.DefaultOptions()
+		opts.Units = c.u
+		a, err := Run(context.Background(), Request{Model: m, Checks: opts})
+		if err != nil {
+			t.Fatal(err)
+		}
+		var said []string
+		for _, f := range a.Findings() {
+			if f.Code == CodeMaterial && f.Name == "material of segment 1" {
+				said = append(said, f.Message)
+			}
+		}
+		if all := strings.Join(said, "\n"); !strings.Contains(all, c.want) {
+			t.Errorf("in %s the material caution is not %q:\n%s", c.u.Name, c.want, all)
+		}
+	}
+}
+
 // A model its validation refuses is refused alike by both stages, in the
 // display units: the exact solution's error is the finite element one's,
 // not the same fault quoted again in SI base units.

@@ -4,15 +4,19 @@
 //
 // The values are typical, not certified: each Entry names where it comes
 // from, and a user must replace it with the certified values of the material
-// actually used. All values are SI (Pa, kg/m³, 1/K), as in package fem.
+// actually used. All values are SI (Pa, kg/m³, 1/K), as in package fem;
+// the warnings quote them in the display units they are given (package
+// units) and name the unit slips of the fields typed in those units.
 package material
 
 import (
 	"fmt"
 	"math"
+	"slices"
 	"strconv"
 
 	"stave/fem"
+	"stave/fem/units"
 )
 
 // Caution goes beside any list of these materials.
@@ -28,11 +32,8 @@ type Entry struct {
 
 // Typical returns the list of typical materials, a fresh copy each call.
 func Typical() []Entry {
-	const (
-		ksi   = 6894757.293168361 // Pa, NIST SP 811 (2008) B.8
-		lbft3 = 16.01846337396014 // kg/m³ per lb/ft³, NIST SP 811 (2008) B.8
-		perF  = 1.8               // 1/K per 1/°F
-	)
+	us := units.USCustomary // exact factors, NIST SP 811 (2008) Appendix B
+	ksi, lbft3, perF := us.Unit(units.Modulus).ToSI, us.Unit(units.Density).ToSI, us.Unit(units.ThermalExpansion).ToSI
 	return []Entry{
 		{
 			Material: fem.Material{Name: "Structural steel S355 (typical)", Elastic: 210e9, Density: 7850, ThermalExpansion: 12e-6, Allowable: 355e6},
@@ -73,70 +74,179 @@ func Typical() []Entry {
 // catching unit slips, which are factors of 7 (ksi and MPa) or more.
 const farFactor = 3.0
 
-// slip is a unit mistake that multiplies a typed value by ratio.
+// slip is a value typed in one unit into a field that expects another: the
+// field stores it ratio times the value meant.
 type slip struct {
-	ratio float64
-	hint  string
+	typed, expected string  // unit symbols
+	ratio           float64 // SI value stored / SI value meant
+	hint            string
 }
 
-// Unit slips seen with the modulus: ratio is typed value in Pa / meant value.
-var modulusSlips = []slip{
-	{1e3, "Did you type a value in MPa where GPa is expected?"},
-	{1e6, "Did you type a value in Pa where MPa is expected?"},
-	{1e9, "Did you type a value in Pa where GPa is expected?"},
-	{1e-3, "Did you type a value in GPa where MPa is expected?"},
-	{1e-6, "Did you type a value in MPa where Pa is expected?"},
-	{1e-9, "Did you type a value in GPa where Pa is expected?"},
-	{1 / 6.894757293168361, "Did you type a value in ksi where MPa is expected? 1 ksi is 6.895 MPa."},
-	{6.894757293168361, "Did you type a value in MPa where ksi is expected? 1 ksi is 6.895 MPa."},
+// mistyped is the slip of what ("a value", "the density") typed in unit
+// typed into a field of unit expected. Its hint asks about it and says how
+// many of the smaller unit make one of the larger.
+func mistyped(what string, typed, expected units.Unit) slip {
+	ratio := expected.ToSI / typed.ToSI
+	larger, smaller, n := expected, typed, ratio
+	if ratio < 1 {
+		larger, smaller, n = typed, expected, 1/ratio
+	}
+	return slip{typed: typed.Symbol, expected: expected.Symbol, ratio: ratio,
+		hint: fmt.Sprintf("Did you type %s in %s where %s is expected? 1 %s is %s %s.",
+			what, typed.Symbol, expected.Symbol, larger.Symbol, units.FormatNumber(n), smaller.Symbol)}
 }
 
-// Slips seen with density: unit weight typed as density, t/m³ or g/cm³ or
-// lb/ft³ typed as kg/m³.
-var densitySlips = []slip{
-	{fem.StandardGravity / 1000, "Did you type the unit weight in kN/m³? Density is mass per volume: 78.5 kN/m³ ÷ 9.81 m/s² is 8000 kg/m³."},
-	{fem.StandardGravity, "Did you type the unit weight in N/m³? Density is mass per volume: divide it by 9.81 m/s²."},
-	{1e-3, "Did you type the density in t/m³ or g/cm³? Multiply by 1000 to get kg/m³."},
-	{1 / 16.01846337396014, "Did you type the density in lb/ft³? 1 lb/ft³ is 16.02 kg/m³."},
+// saying is s with another hint.
+func (s slip) saying(hint string) slip {
+	s.hint = hint
+	return s
 }
 
-// FarFromTypical returns warnings, written for someone new to the trade,
+// fields are the units of the fields a value is typed in, as seen by
+// someone using u: u's units of kinds, its own field's first, then a
+// file's SI base unit, which every model is saved in and may be written
+// by hand in; each once.
+func fields(u units.System, kinds ...units.Kind) []units.Unit {
+	var out []units.Unit
+	for _, q := range kinds {
+		out = append(out, u.Unit(q))
+	}
+	out = append(out, units.Base.Unit(kinds[0]))
+	var once []units.Unit
+	for _, f := range out {
+		if !slices.Contains(once, f) {
+			once = append(once, f)
+		}
+	}
+	return once
+}
+
+// modulusSlips are the slips of E typed in MPa, GPa, Pa, ksi or psi into
+// a field of u (GPa or ksi), in u's unit of stress (MPa in SI: EN 1993-1-1
+// quotes E = 210 000 N/mm², from memory), or in a file (Pa). Two slips of
+// one ratio (psi for MPa and ksi for GPa, both 145.04) are named once, by
+// the first.
+func modulusSlips(u units.System) []slip {
+	typed := []units.Unit{units.SI.Unit(units.Stress), units.SI.Unit(units.Modulus), units.Base.Unit(units.Modulus), units.USCustomary.Unit(units.Modulus)}
+	if psi, ok := units.Lookup(units.Modulus, "psi"); ok {
+		typed = append(typed, psi)
+	}
+	var out []slip
+	for _, expected := range fields(u, units.Modulus, units.Stress) {
+		for _, t := range typed {
+			if t == expected || slices.ContainsFunc(out, func(s slip) bool { return sameRatio(s.ratio, expected.ToSI/t.ToSI) }) {
+				continue
+			}
+			out = append(out, mistyped("a value", t, expected))
+		}
+	}
+	return out
+}
+
+// densitySlips are the slips of a density typed into a field of u or of a
+// file. A kg/m³ field may get a unit weight (kN/m³ or N/m³), t/m³ or
+// g/cm³, or lb/ft³; a lb/ft³ field a unit weight in kip/ft³ (kcf), lb/in³
+// as metals' data sheets give it, or kg/m³. A unit weight in lbf/ft³ is
+// the density in lb/ft³ (1 lbf is the weight of 1 lb under standard
+// gravity), so it is no slip.
+func densitySlips(u units.System) []slip {
+	kgm3, lbft3 := units.Base.Unit(units.Density), units.USCustomary.Unit(units.Density)
+	inchesPerFoot := units.USCustomary.Unit(units.Position).ToSI / units.USCustomary.Unit(units.Dimension).ToSI
+	var out []slip
+	for _, field := range fields(u, units.Density) {
+		switch field {
+		case kgm3:
+			out = append(out,
+				mistyped("the unit weight", units.Unit{Symbol: "kN/m³", ToSI: 1000 / fem.StandardGravity}, kgm3).
+					saying("Did you type the unit weight in kN/m³ where kg/m³ is expected? Density is mass per volume: 78.5 kN/m³ ÷ 9.81 m/s² is 8000 kg/m³."),
+				mistyped("the unit weight", units.Unit{Symbol: "N/m³", ToSI: 1 / fem.StandardGravity}, kgm3).
+					saying("Did you type the unit weight in N/m³ where kg/m³ is expected? Density is mass per volume: divide it by 9.81 m/s²."),
+				mistyped("the density", units.Unit{Symbol: "t/m³", ToSI: 1000}, kgm3).
+					saying("Did you type the density in t/m³ or g/cm³ where kg/m³ is expected? Multiply by 1000 to get kg/m³."),
+				mistyped("the density", lbft3, kgm3))
+		case lbft3:
+			out = append(out,
+				mistyped("the unit weight", units.Unit{Symbol: "kip/ft³", ToSI: 1000 * lbft3.ToSI}, lbft3),
+				mistyped("the density", units.Unit{Symbol: "lb/in³", ToSI: math.Pow(inchesPerFoot, 3) * lbft3.ToSI}, lbft3),
+				mistyped("the density", kgm3, lbft3))
+		}
+	}
+	return out
+}
+
+// sameRatio tells ratios apart only by round-off.
+func sameRatio(a, b float64) bool { return math.Abs(a-b) <= 1e-12*math.Abs(b) }
+
+// FarFromTypicalIn returns warnings, written for someone new to the trade,
 // when the modulus or the density of m is far from every typical material,
 // or when the density does not go with the material its modulus resembles.
-// An empty result means nothing looks odd; it is no proof the values are right.
-func FarFromTypical(m fem.Material) []string {
+// The warnings quote values in u, the display units (the zero System reads
+// as units.Base, a file's), and name the unit slips of the fields a user of
+// u types into. An empty result means nothing looks odd; it is no proof
+// the values are right.
+func FarFromTypicalIn(m fem.Material, u units.System) []string {
 	name := m.Name
 	if name == "" {
 		name = "this material"
 	}
-	if !(m.Elastic > 0) || math.IsInf(m.Elastic, 0) {
-		return []string{fmt.Sprintf("%s: E = %g Pa; Young's modulus must be a positive number (steel's is about 210e9 Pa = 210 GPa).", name, m.Elastic)}
+	if u.Name == "" {
+		u = units.Base
 	}
-	elastic := func(e Entry) float64 { return e.Material.Elastic }
-	density := func(e Entry) float64 { return e.Material.Density }
 	typical := Typical()
+	elastic := property{"E", func(e Entry) float64 { return e.Material.Elastic }, func(v float64) string { return u.Format(units.Modulus, v) }}
+	density := property{"density", func(e Entry) float64 { return e.Material.Density }, func(v float64) string { return u.Format(units.Density, v) }}
+	if !(m.Elastic > 0) || math.IsInf(m.Elastic, 0) {
+		steel := typical[slices.IndexFunc(typical, func(e Entry) bool { return e.Kind == "steel" })]
+		return []string{fmt.Sprintf("%s: E = %s; Young's modulus must be a positive number (steel's is about %s).",
+			name, elastic.show(m.Elastic), u.FormatFigures(units.Modulus, elastic.of(steel), 2))}
+	}
 	var warnings []string
-	byModulus := nearest(typical, m.Elastic, elastic)
-	modulusFar := far(m.Elastic, elastic(byModulus))
+	byModulus := nearest(typical, m.Elastic, elastic.of)
+	modulusFar := far(m.Elastic, elastic.of(byModulus))
 	if modulusFar {
-		warnings = append(warnings, fmt.Sprintf("%s: E = %.3g Pa is %s that of %s (%.3g Pa), the nearest typical material. %s",
-			name, m.Elastic, times(m.Elastic/elastic(byModulus)), kindName(byModulus), elastic(byModulus), hint(m.Elastic, modulusSlips, typical, elastic, checkUnit)))
+		warnings = append(warnings, elastic.warning(name, m.Elastic, byModulus, nearestTypical, typical, modulusSlips(u), checkUnit))
 	}
 	switch {
 	case m.Density < 0 || math.IsNaN(m.Density) || math.IsInf(m.Density, 0):
-		warnings = append(warnings, fmt.Sprintf("%s: density = %g kg/m³ must be a finite number, not negative; use 0 to leave out self-weight.", name, m.Density))
+		warnings = append(warnings, fmt.Sprintf("%s: density = %s must be a finite number, not negative; use 0 to leave out self-weight.", name, density.show(m.Density)))
 	case m.Density == 0:
-	case !modulusFar && far(m.Density, density(byModulus)):
+	case !modulusFar && far(m.Density, density.of(byModulus)):
 		// E looks right, so it tells the kind of material the density should match.
-		warnings = append(warnings, fmt.Sprintf("%s: density = %.4g kg/m³ is %s that of %s (%.4g kg/m³), whose E is closest to yours. %s",
-			name, m.Density, times(m.Density/density(byModulus)), kindName(byModulus), density(byModulus), hint(m.Density, densitySlips, []Entry{byModulus}, density, checkSameKind)))
+		warnings = append(warnings, density.warning(name, m.Density, byModulus, ", whose E is closest to yours", []Entry{byModulus}, densitySlips(u), checkSameKind))
 	case modulusFar:
-		if byDensity := nearest(typical, m.Density, density); far(m.Density, density(byDensity)) {
-			warnings = append(warnings, fmt.Sprintf("%s: density = %.4g kg/m³ is %s that of %s (%.4g kg/m³), the nearest typical material. %s",
-				name, m.Density, times(m.Density/density(byDensity)), kindName(byDensity), density(byDensity), hint(m.Density, densitySlips, typical, density, checkUnit)))
+		if byDensity := nearest(typical, m.Density, density.of); far(m.Density, density.of(byDensity)) {
+			warnings = append(warnings, density.warning(name, m.Density, byDensity, nearestTypical, typical, densitySlips(u), checkUnit))
 		}
 	}
 	return warnings
+}
+
+// property is E or density: its name, its value in an Entry and how a
+// value is shown.
+type property struct {
+	name string
+	of   func(Entry) float64
+	show func(float64) string
+}
+
+const nearestTypical = ", the nearest typical material"
+
+// warning says that v, the value of p for the material called name, is
+// far from that of ref, which why tells how it was chosen. When a slip,
+// undone, brings v near one of entries, the warning compares v with that
+// entry and names the slip, so a value typed in psi reads 1000 times that
+// of typical steel and not 952 times that of another steel; otherwise it
+// ends with otherwise.
+func (p property) warning(name string, v float64, ref Entry, why string, entries []Entry, slips []slip, otherwise string) string {
+	advice := otherwise
+	if s, e, ok := undo(v, slips, entries, p.of); ok {
+		advice = s.hint
+		if e.Material.Name != ref.Material.Name {
+			ref, why = e, ""
+		}
+	}
+	return fmt.Sprintf("%s: %s = %s is %s that of %s (%s)%s. %s",
+		name, p.name, p.show(v), times(v/p.of(ref)), kindName(ref), p.show(p.of(ref)), why, advice)
 }
 
 // nearest finds the entry whose property is closest to v on a log scale, so
@@ -161,18 +271,18 @@ func far(v, reference float64) bool {
 // farFactor, so a hint is given only when it explains the number well.
 const slipMatch = 1.5
 
-// hint names the slip that, undone, brings v closest to one of entries, or
-// returns otherwise when none brings it within slipMatch.
-func hint(v float64, slips []slip, entries []Entry, property func(Entry) float64, otherwise string) string {
-	found, bestDistance := otherwise, math.Log(slipMatch)
+// undo finds the slip that, undone, brings v closest to one of entries,
+// and that entry; ok is false when none brings it within slipMatch.
+func undo(v float64, slips []slip, entries []Entry, property func(Entry) float64) (found slip, near Entry, ok bool) {
+	bestDistance := math.Log(slipMatch)
 	for _, s := range slips {
 		meant := v / s.ratio
-		reference := property(nearest(entries, meant, property))
-		if d := math.Abs(math.Log(meant / reference)); d < bestDistance {
-			found, bestDistance = s.hint, d
+		e := nearest(entries, meant, property)
+		if d := math.Abs(math.Log(meant / property(e))); d < bestDistance {
+			found, near, ok, bestDistance = s, e, true, d
 		}
 	}
-	return found
+	return found, near, ok
 }
 
 const (

@@ -6,7 +6,26 @@ import (
 	"testing"
 
 	"stave/fem"
+	"stave/fem/units"
 )
+
+// Exact conversion factors of NIST SP 811 (2008), Appendix B: the tests
+// work out each value in US units from these, not from package units.
+const (
+	lbf  = 4.4482216152605 // N
+	inch = 0.0254          // m
+	foot = 0.3048          // m
+	lb   = 0.45359237      // kg
+	gn   = 9.80665         // m/s², standard acceleration of gravity (exact by definition)
+	psi  = lbf / (inch * inch)
+	ksi  = 1000 * psi // 1 kip = 1000 lbf
+	pcf  = lb / (foot * foot * foot)
+)
+
+// systems are the units cautions may quote values in: the two display
+// systems, the SI base units of a file, and the zero System, which reads as
+// the base units.
+var systems = []units.System{units.SI, units.USCustomary, units.Base, {}}
 
 func TestTypicalEntriesAreSane(t *testing.T) {
 	for _, e := range Typical() {
@@ -25,8 +44,10 @@ func TestTypicalEntriesAreSane(t *testing.T) {
 		if m.Allowable > m.Elastic/100 {
 			t.Errorf("%s: strength %g Pa is more than E/100 = %g Pa", m.Name, m.Allowable, m.Elastic/100)
 		}
-		if w := FarFromTypical(m); len(w) != 0 {
-			t.Errorf("%s: a typical material is flagged: %v", m.Name, w)
+		for _, u := range systems {
+			if w := FarFromTypicalIn(m, u); len(w) != 0 {
+				t.Errorf("%s in %s: a typical material is flagged: %v", m.Name, u.Name, w)
+			}
 		}
 	}
 }
@@ -60,7 +81,7 @@ func TestSteelEntriesAgreeAcrossCodes(t *testing.T) {
 	}
 }
 
-func TestFarFromTypical(t *testing.T) {
+func TestFarFromTypicalIn(t *testing.T) {
 	steel := Typical()[0].Material
 	with := func(elastic, density float64) fem.Material {
 		m := steel
@@ -68,37 +89,80 @@ func TestFarFromTypical(t *testing.T) {
 		m.Elastic, m.Density = elastic, density
 		return m
 	}
+	us, si, base := units.USCustomary, units.SI, units.Base
 	cases := []struct {
 		name     string
+		units    units.System
 		material fem.Material
 		want     []string // each must appear in some warning; nil means no warning
+		not      []string // none may appear in any warning
 	}{
-		{"steel as typed correctly", with(200e9, 7850), nil},
-		{"aluminium", with(70e9, 2710), nil},
-		{"aluminium with steel's density is within the factor of 3", with(70e9, 7850), nil},
-		{"timber", with(12e9, 500), nil},
-		{"density 0 leaves out self-weight", with(210e9, 0), nil},
-		{"MPa typed in a GPa field", with(2.1e14, 7850), []string{"1000 times", "MPa where GPa"}},
-		{"GPa typed in a Pa field", with(210, 7850), []string{"GPa where Pa"}},
-		{"MPa typed in a Pa field", with(210000, 7850), []string{"MPa where Pa"}},
+		// AISC gives E = 29,000 ksi and 490 lb/ft³ for steel (from memory);
+		// typed in psi, E is 29,000,000 in the ksi field.
+		{"US: psi typed in the ksi field", us, with(29e6*ksi, 490*pcf),
+			[]string{"E = 2.900e+07 ksi is 1000 times that of typical steel (29000 ksi)", "psi where ksi", "1 ksi is 1000 psi"}, []string{"Pa", "kg/m³", "GPa"}},
+		{"US: MPa typed in the ksi field", us, with(200000*ksi, 490*pcf), []string{"E = 200000 ksi", "MPa where ksi", "1 ksi is 6.895 MPa"}, nil},
+		{"US: GPa typed in the ksi field", us, with(200*ksi, 490*pcf), []string{"E = 200.0 ksi", "GPa where ksi", "1 GPa is 145.0 ksi"}, nil},
+		// A unit weight of 0.490 kip/ft³ (kcf) typed in the lb/ft³ field.
+		{"US: kip/ft³ typed in the lb/ft³ field", us, with(29000*ksi, 0.49*pcf),
+			[]string{"density = 0.4900 lb/ft³ is 1/1000 of that of typical steel (490.0 lb/ft³)", "kip/ft³ where lb/ft³"}, []string{"kg/m³", "t/m³"}},
+		// 0.284 lb/in³, steel as US metal data sheets give it (from memory).
+		{"US: lb/in³ typed in the lb/ft³ field", us, with(29000*ksi, 0.284*pcf), []string{"lb/in³ where lb/ft³", "1 lb/in³ is 1728 lb/ft³"}, nil},
+		{"US: kg/m³ typed in the lb/ft³ field", us, with(29000*ksi, 7850*pcf), []string{"kg/m³ where lb/ft³"}, nil},
+		// A file holds kg/m³: a unit weight of 78.5 kN/m³ typed there, seen in a US window.
+		{"US: unit weight typed in a file", us, with(29000*ksi, 78.5), []string{"density = 4.901 lb/ft³", "unit weight in kN/m³ where kg/m³ is expected"}, nil},
+		{"US: negative density", us, with(29000*ksi, -1*pcf), []string{"density = -1.000 lb/ft³ must be a finite number"}, nil},
+		{"US: zero modulus", us, with(0, 490*pcf), []string{"E = 0 ksi", "must be a positive number", "about 30000 ksi"}, []string{"Pa"}},
+
+		{"SI: MPa typed in the GPa field", si, with(210000e9, 7850),
+			[]string{"E = 210000 GPa is 1000 times that of typical steel (210.0 GPa)", "MPa where GPa"}, []string{"ksi", "e+14"}},
+		// 29,000 ksi typed in the GPa field: undone it is A992 steel.
+		{"SI: ksi typed in the GPa field", si, with(29000e9, 7850), []string{"ksi where GPa"}, nil},
+		// 78.5 kN/m³, steel's unit weight (EN 1991-1-1 Table A.4, from memory), typed as a density.
+		{"SI: unit weight in kN/m³ typed as density", si, with(210e9, 78.5),
+			[]string{"density = 78.50 kg/m³ is 1/100 of that of typical steel (7850 kg/m³)", "unit weight in kN/m³"}, []string{"lb/ft³"}},
+		{"SI: unit weight in N/m³ typed as density", si, with(210e9, 78500), []string{"unit weight in N/m³"}, nil},
+		{"SI: t/m³ typed as kg/m³", si, with(33e9, 2.4), []string{"t/m³"}, nil},
+		{"SI: lb/ft³ typed as kg/m³", si, with(210e9, 490), []string{"lb/ft³ where kg/m³", "1 lb/ft³ is 16.02 kg/m³"}, nil},
 		// 29000 ksi typed as MPa gives a plausible concrete E; only the density
 		// of steel beside it gives the mistake away.
-		{"ksi typed in an MPa field", with(29000e6, 7850), []string{"3.27 times that of typical concrete", "same material"}},
-		{"ksi typed in a GPa field", with(29000e9, 7850), []string{"MPa where GPa"}},
-		{"MPa typed in a ksi field", with(200000*6.894757293168361e6, 7850), []string{"MPa where ksi"}},
-		{"unit weight typed as density", with(210e9, 78.5), []string{"unit weight in kN/m³"}},
-		{"t/m³ typed as kg/m³", with(33e9, 2.4), []string{"t/m³"}},
-		{"lb/ft³ typed as kg/m³", with(210e9, 490), []string{"lb/ft³"}},
-		{"a plastic: soft, no slip to name", with(3e9, 1200), []string{"1/3.67 of that of typical timber", "If your material really is"}},
-		{"zero modulus", with(0, 7850), []string{"must be a positive number"}},
-		{"negative density", with(210e9, -1), []string{"must be a finite number, not negative"}},
+		{"SI: ksi typed in an MPa field", si, with(29000e6, 7850), []string{"3.27 times that of typical concrete", "same material"}, nil},
+		{"SI: a plastic, soft, no slip to name", si, with(3e9, 1200), []string{"E = 3.000 GPa is 1/3.67 of that of typical timber (11.00 GPa)", "If your material really is"}, []string{"Did you"}},
+		{"SI: zero modulus", si, with(0, 7850), []string{"E = 0 GPa", "must be a positive number"}, nil},
+		{"SI: negative density", si, with(210e9, -1), []string{"density = -1.000 kg/m³ must be a finite number, not negative"}, nil},
+
+		{"file: GPa typed in a Pa field", base, with(210, 7850), []string{"E = 210.0 Pa", "GPa where Pa"}, nil},
+		{"file: MPa typed in a Pa field", base, with(210000, 7850), []string{"MPa where Pa"}, nil},
+		{"file: psi typed in a Pa field", base, with(29e6, 7850), []string{"psi where Pa"}, nil},
+		{"no system: the file's units", units.System{}, with(210, 7850), []string{"E = 210.0 Pa", "GPa where Pa"}, nil},
+	}
+	// Materials that are fine give nothing, in any units.
+	for _, u := range systems {
+		for _, m := range []struct {
+			name     string
+			material fem.Material
+		}{
+			{"steel as typed correctly", with(200e9, 7850)},
+			{"aluminium", with(70e9, 2710)},
+			{"aluminium with steel's density is within the factor of 3", with(70e9, 7850)},
+			{"timber", with(12e9, 500)},
+			{"density 0 leaves out self-weight", with(210e9, 0)},
+		} {
+			cases = append(cases, struct {
+				name     string
+				units    units.System
+				material fem.Material
+				want     []string
+				not      []string
+			}{m.name, u, m.material, nil, nil})
+		}
 	}
 	for _, c := range cases {
-		got := FarFromTypical(c.material)
-		t.Logf("%s: %q", c.name, got)
+		got := FarFromTypicalIn(c.material, c.units)
+		t.Logf("%s (%s): %q", c.name, c.units.Name, got)
 		if c.want == nil {
 			if len(got) != 0 {
-				t.Errorf("%s: unexpected warnings %q", c.name, got)
+				t.Errorf("%s (%s): unexpected warnings %q", c.name, c.units.Name, got)
 			}
 			continue
 		}
@@ -106,6 +170,75 @@ func TestFarFromTypical(t *testing.T) {
 		for _, w := range c.want {
 			if !strings.Contains(all, w) {
 				t.Errorf("%s: warnings %q do not contain %q", c.name, got, w)
+			}
+		}
+		for _, w := range c.not {
+			if strings.Contains(all, w) {
+				t.Errorf("%s: warnings %q contain %q", c.name, got, w)
+			}
+		}
+	}
+}
+
+// Each slip's ratio is the one the exact conversion factors of NIST SP 811
+// (2008), Appendix B give (see the constants above), worked out here
+// independently of package units: a value typed in unit T into a field of
+// unit X is stored X/T times the value meant.
+func TestSlipRatios(t *testing.T) {
+	us, si, base := units.USCustomary, units.SI, units.Base
+	cases := []struct {
+		units           units.System
+		typed, expected string
+		want            float64
+	}{
+		{us, "psi", "ksi", ksi / psi},
+		{us, "MPa", "ksi", ksi / 1e6},
+		{us, "GPa", "ksi", ksi / 1e9},
+		{us, "Pa", "ksi", ksi},
+		{us, "kip/ft³", "lb/ft³", pcf / (1000 * pcf)},
+		{us, "lb/in³", "lb/ft³", pcf / (lb / (inch * inch * inch))},
+		{us, "kg/m³", "lb/ft³", pcf},
+		{us, "lb/ft³", "kg/m³", 1 / pcf}, // a file, which holds kg/m³
+		{us, "psi", "Pa", 1 / psi},
+		{si, "MPa", "GPa", 1e3},
+		{si, "Pa", "GPa", 1e9},
+		{si, "ksi", "GPa", 1e9 / ksi},
+		{si, "ksi", "MPa", 1e6 / ksi},
+		{si, "GPa", "MPa", 1e-3},
+		{si, "Pa", "MPa", 1e6},
+		{si, "MPa", "Pa", 1e-6},
+		{si, "GPa", "Pa", 1e-9},
+		// A unit weight in kN/m³ is a density of 1000/gₙ kg/m³ (standard gravity, exact).
+		{si, "kN/m³", "kg/m³", gn / 1000},
+		{si, "N/m³", "kg/m³", gn},
+		{si, "t/m³", "kg/m³", 1e-3},
+		{si, "lb/ft³", "kg/m³", 1 / pcf},
+		{base, "psi", "Pa", 1 / psi},
+		{base, "ksi", "Pa", 1 / ksi},
+	}
+	for _, c := range cases {
+		var found []slip
+		for _, s := range append(modulusSlips(c.units), densitySlips(c.units)...) {
+			if s.typed == c.typed && s.expected == c.expected {
+				found = append(found, s)
+			}
+		}
+		if len(found) != 1 {
+			t.Errorf("%s: %d slips of %s typed where %s is expected, want 1", c.units.Name, len(found), c.typed, c.expected)
+			continue
+		}
+		if got := found[0].ratio; math.Abs(got-c.want) > 1e-14*c.want {
+			t.Errorf("%s: %s typed where %s is expected: ratio %.17g, want %.17g", c.units.Name, c.typed, c.expected, got, c.want)
+		}
+	}
+	// A ksi field takes no unit weights in SI units, nor an SI window a ksi slip.
+	for _, c := range []struct {
+		units           units.System
+		typed, expected string
+	}{{us, "kN/m³", "lb/ft³"}, {si, "MPa", "ksi"}, {base, "MPa", "GPa"}} {
+		for _, s := range append(modulusSlips(c.units), densitySlips(c.units)...) {
+			if s.typed == c.typed && s.expected == c.expected {
+				t.Errorf("%s: slip %s typed where %s is expected, which no field of these units expects", c.units.Name, c.typed, c.expected)
 			}
 		}
 	}

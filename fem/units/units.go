@@ -589,6 +589,11 @@ func candidates(q Kind) []Unit {
 	return append([]Unit{SI.Units[q], USCustomary.Units[q]}, extraUnits[q]...)
 }
 
+// Lookup is the unit Parse reads symbol as, for a value of q ("psi" for a
+// modulus, "pcf" for a density), for a caller that needs the factor of a
+// unit its system does not show; ok is false when Parse takes no such unit.
+func Lookup(q Kind, symbol string) (u Unit, ok bool) { return lookUp(q, symbol) }
+
 // lookUp finds the unit of q typed as symbol, among the candidates and
 // then the aliases. A leading '/' reads as "1/" (/°F is 1/°F).
 func lookUp(q Kind, symbol string) (Unit, bool) {

@@ -615,3 +615,34 @@ func TestFormatHalfwayIsOneSpelling(t *testing.T) {
 		}
 	}
 }
+
+// Lookup gives the unit Parse reads a symbol as, for other packages that
+// need a unit's factor (the material cautions' unit slips); it knows only
+// the units Parse takes for that kind of value.
+func TestLookup(t *testing.T) {
+	const (
+		lbf  = 4.4482216152605 // N, NIST SP 811 (2008) Appendix B, exact from lb and gₙ
+		inch = 0.0254          // m, NIST SP 811 (2008) Appendix B, exact
+		foot = 0.3048          // m, NIST SP 811 (2008) Appendix B, exact
+		lb   = 0.45359237      // kg, NIST SP 811 (2008) Appendix B, exact
+	)
+	for _, c := range []struct {
+		q      Kind
+		symbol string
+		ok     bool
+		want   float64 // ToSI when ok
+	}{
+		{Modulus, "psi", true, lbf / (inch * inch)},
+		{Modulus, "MPa", true, 1e6}, // SI prefix mega, NIST SP 811 Sec. 4.3, from memory
+		{Density, "pcf", true, lb / (foot * foot * foot)},
+		{Density, "lb/ft^3", true, lb / (foot * foot * foot)},
+		{Density, "t/m³", false, 0},
+		{Modulus, "kN", false, 0},
+		{Kind(-1), "Pa", false, 0},
+	} {
+		u, ok := Lookup(c.q, c.symbol)
+		if ok != c.ok || ok && math.Abs(u.ToSI-c.want) > 1e-15*c.want {
+			t.Errorf("Lookup(%s, %q) = %+v, %v; want ToSI %.16g, %v", c.q, c.symbol, u, ok, c.want, c.ok)
+		}
+	}
+}
