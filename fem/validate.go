@@ -360,8 +360,8 @@ func (v *validator) err() error {
 func label(it Item) string { return fmt.Sprintf("%s %d", it.Kind, it.Index+1) }
 
 // property reports a property of kind k that must be finite and > 0 (or
-// >= 0 when zero is allowed).
-func (v *validator) property(at Place, name string, value float64, k units.Kind, zeroAllowed bool) {
+// >= 0 when zero is allowed), and says whether it is.
+func (v *validator) property(at Place, name string, value float64, k units.Kind, zeroAllowed bool) (ok bool) {
 	switch {
 	case !isFinite(value):
 		v.add(at, fmt.Sprintf("%s: %s is %v: enter a finite %s", label(at.Item), name, value, v.valueIn(k)))
@@ -371,7 +371,10 @@ func (v *validator) property(at Place, name string, value float64, k units.Kind,
 			want = "zero or positive"
 		}
 		v.add(at, fmt.Sprintf("%s: %s is %s: it must be %s", label(at.Item), name, v.num(k, value), want))
+	default:
+		return true
 	}
+	return false
 }
 
 // plain is the kind of a number with no unit (a coefficient).
@@ -441,17 +444,17 @@ func (v *validator) segments(segs []Segment) {
 			}
 		}
 		at := func(p Property) Place { return Place{Item: it, Property: p} }
-		v.property(at(AreaProperty), "the area A", s.Section.Area, units.Area, false)
+		areaOK := v.property(at(AreaProperty), "the area A", s.Section.Area, units.Area, false)
 		v.property(at(SecondMomentProperty), "the second moment of area I", s.Section.SecondMoment, units.SecondMoment, false)
 		v.property(at(FibreDistanceProperty), "the extreme fibre distance c", s.Section.FibreDistance, units.Dimension, false)
-		v.property(at(ElasticProperty), "Young's modulus E", s.Material.Elastic, units.Modulus, false)
+		elasticOK := v.property(at(ElasticProperty), "Young's modulus E", s.Material.Elastic, units.Modulus, false)
 		v.property(at(DensityProperty), "the density", s.Material.Density, units.Density, true)
 		v.property(at(AllowableProperty), "the allowable stress", s.Material.Allowable, units.Stress, true)
 		if a := s.Material.ThermalExpansion; !isFinite(a) {
 			v.add(at(ThermalExpansionProperty), fmt.Sprintf("segment %d: the thermal expansion coefficient is %v: enter a finite value in %s", i+1, a, v.unit(units.ThermalExpansion)))
 		}
 		v.property(at(DepthProperty), "the depth", s.Section.Depth, units.Dimension, true)
-		v.shearDeformation(i, s)
+		v.shearDeformation(i, s, areaOK, elasticOK)
 		switch dt := s.TemperatureDifference; {
 		case !isFinite(dt):
 			v.add(at(TemperatureDifferenceProperty), fmt.Sprintf("segment %d: the temperature difference through the depth is %v: enter a finite value in %s", i+1, dt, v.unit(units.TemperatureChange)))
@@ -642,22 +645,25 @@ func lowestWithin(xs, queries []float64, tol float64) []int {
 
 // shearDeformation checks what a Timoshenko segment needs: a shear area
 // (given, or a coefficient of the area) and a shear modulus (given, or from
-// Poisson's ratio).
-func (v *validator) shearDeformation(i int, s Segment) {
+// Poisson's ratio). areaOK and elasticOK say that A and E passed their own
+// checks: a shear area or modulus that comes out of a value already refused
+// is not reported again as missing.
+func (v *validator) shearDeformation(i int, s Segment, areaOK, elasticOK bool) {
 	at := func(p Property) Place { return Place{Item: Item{Kind: SegmentItem, Index: i}, Property: p} }
-	v.property(at(ShearAreaProperty), "the shear area", s.Section.ShearArea, units.Area, true)
-	v.property(at(ShearCoefficientProperty), "the shear coefficient", s.Section.ShearCoefficient, plain, true)
-	v.property(at(ShearModulusProperty), "the shear modulus", s.Material.ShearModulus, units.Modulus, true)
+	areaOK = v.property(at(ShearAreaProperty), "the shear area", s.Section.ShearArea, units.Area, true) && areaOK
+	areaOK = v.property(at(ShearCoefficientProperty), "the shear coefficient", s.Section.ShearCoefficient, plain, true) && areaOK
+	modulusOK := v.property(at(ShearModulusProperty), "the shear modulus", s.Material.ShearModulus, units.Modulus, true) && elasticOK
 	if nu := s.Material.Poisson; !isFinite(nu) || nu <= -1 || nu > 0.5 {
 		v.add(at(PoissonProperty), fmt.Sprintf("segment %d: Poisson's ratio is %s: enter a value above −1 and at most 0.5 (about 0.3 for steel)", i+1, fmtNumber(nu)))
+		modulusOK = false
 	}
 	if !s.ShearDeformation {
 		return
 	}
-	if !(s.Section.shearArea() > 0) {
+	if areaOK && !(s.Section.shearArea() > 0) {
 		v.add(at(ShearAreaProperty), fmt.Sprintf("segment %d deforms in shear but has no shear area: give the shear area, or the shear coefficient (5/6 for a solid rectangle)", i+1))
 	}
-	if !(s.Material.shearModulus() > 0) {
+	if modulusOK && !(s.Material.shearModulus() > 0) {
 		v.add(at(ShearModulusProperty), fmt.Sprintf("segment %d deforms in shear but has no shear modulus: give G, or Poisson's ratio for G = E/(2(1+ν))", i+1))
 	}
 }

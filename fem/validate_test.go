@@ -417,3 +417,41 @@ func TestValidateCombinationOfZeroFactors(t *testing.T) {
 		}
 	}
 }
+
+// A Timoshenko segment whose shear area or shear modulus comes out of a
+// value already refused gets that one problem, not a second one saying the
+// shear area or modulus is missing; one that gives neither still hears
+// that it has none.
+func TestValidateShearDeformationOneProblem(t *testing.T) {
+	for _, c := range []struct {
+		name  string
+		edit  func(s *Segment)
+		place Place
+		text  string
+	}{
+		{"negative shear area", func(s *Segment) { s.Section.ShearArea, s.Section.ShearCoefficient = -0.01, 0 }, place(SegmentItem, 0, ShearAreaProperty), "the shear area is -0.01 m²: it must be zero or positive"},
+		{"negative shear coefficient", func(s *Segment) { s.Section.ShearCoefficient = -0.8 }, place(SegmentItem, 0, ShearCoefficientProperty), "the shear coefficient is -0.8: it must be zero or positive"},
+		{"NaN shear area", func(s *Segment) { s.Section.ShearArea, s.Section.ShearCoefficient = math.NaN(), 0 }, place(SegmentItem, 0, ShearAreaProperty), "the shear area is NaN"},
+		{"negative area under a coefficient", func(s *Segment) { s.Section.Area = -testA }, place(SegmentItem, 0, AreaProperty), "the area A is"},
+		{"Poisson's ratio below -1", func(s *Segment) { s.Material.Poisson = -1.5 }, place(SegmentItem, 0, PoissonProperty), "Poisson's ratio is -1.5"},
+		{"negative E under Poisson's ratio", func(s *Segment) { s.Material.Elastic = -testE }, place(SegmentItem, 0, ElasticProperty), "Young's modulus E is"},
+		{"no shear area given", func(s *Segment) { s.Section.ShearCoefficient = 0 }, place(SegmentItem, 0, ShearAreaProperty), "segment 1 deforms in shear but has no shear area"},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			m := validModel()
+			s := &m.Segments[0]
+			s.ShearDeformation = true
+			s.Section.ShearCoefficient = 5.0 / 6 // a solid rectangle's, from memory
+			s.Material.Poisson = 0.3
+			c.edit(s)
+			err := m.Validate()
+			var ve *ValidationError
+			if !errors.As(err, &ve) {
+				t.Fatalf("got %v, want a *ValidationError", err)
+			}
+			if len(ve.Problems) != 1 || ve.Problems[0].Place != c.place || !strings.Contains(ve.Problems[0].Message, c.text) {
+				t.Errorf("want one problem at %+v saying %q, got\n%v", c.place, c.text, err)
+			}
+		})
+	}
+}
