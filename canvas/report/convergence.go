@@ -43,12 +43,16 @@ type convergenceRowJSON struct {
 
 type rateJSON struct {
 	Fitted   *float64 `json:"fitted"`
-	FromRow  int      `json:"fitted_from_row"`
+	FromRow  *int     `json:"fitted_from_row"` // null with Fitted: there is no row a missing fit starts from
 	LastStep *float64 `json:"last_step"`
 }
 
 func rateOf(r study.Rate) rateJSON {
-	return rateJSON{jsonNumber(r.Fitted), r.From, jsonNumber(r.Last)}
+	out := rateJSON{Fitted: jsonNumber(r.Fitted), LastStep: jsonNumber(r.Last)}
+	if out.Fitted != nil {
+		out.FromRow = &r.From
+	}
+	return out
 }
 
 // WriteConvergenceJSON writes the convergence study t of the model in file

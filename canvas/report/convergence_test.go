@@ -3,6 +3,7 @@ package report
 import (
 	"bytes"
 	"context"
+	"encoding/json"
 	"fmt"
 	"math"
 	"strings"
@@ -94,5 +95,58 @@ func TestEnergyErrorIsNamedAsTheSquareRoot(t *testing.T) {
 	want := fmt.Sprintf("%.3g %%", 100*math.Sqrt(1.0/6))
 	if !strings.HasSuffix(line, want) || !strings.Contains(line, "(energy norm of the difference), as a share of the energy norm") {
 		t.Errorf("the energy error line %q: want %s named as the energy norm of the difference over the energy norm (the square roots of the strain energies)", line, want)
+	}
+}
+
+// fitted_from_row is the row a fitted rate starts from, so it is null
+// exactly when fitted is: a cantilever under a tip load, which Hermite
+// elements solve exactly (cubic deflection between nodes, from memory),
+// has no fit and gave "fitted": null beside "fitted_from_row": 0; a simply
+// supported beam under a uniform load, whose quartic deflection they do not
+// reproduce (Gere & Goodno, simple beam, uniform load), has one.
+func TestConvergenceJSONFittedFromRow(t *testing.T) {
+	seg := fem.Segment{Start: 0, End: 4,
+		Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
+		Material: fem.Material{Elastic: 2e11}}
+	for _, c := range []struct {
+		name   string
+		model  fem.Model
+		fitted bool
+	}{
+		{"cantilever, tip load", fem.Model{Segments: []fem.Segment{seg},
+			Supports:   []fem.Support{{X: 0, Kind: fem.Fixed}},
+			PointLoads: []fem.PointLoad{{X: 4, Transverse: -10e3}}}, false},
+		{"simple span, uniform load", fem.Model{Segments: []fem.Segment{seg},
+			Supports:        []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}},
+			DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 4, Intensity: -10e3}}}}}, true},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			table, err := study.Convergence(context.Background(), &c.model, 8, units.Base)
+			if err != nil {
+				t.Fatal(err)
+			}
+			var buf bytes.Buffer
+			if err := WriteConvergenceJSON(&buf, "model.json", table, nil, nil, nil); err != nil {
+				t.Fatal(err)
+			}
+			var doc struct {
+				Rates map[string]struct {
+					Fitted  *float64 `json:"fitted"`
+					FromRow *int     `json:"fitted_from_row"`
+				} `json:"rates"`
+			}
+			if err := json.Unmarshal(buf.Bytes(), &doc); err != nil {
+				t.Fatal(err)
+			}
+			for _, name := range []string{"stress", "displacement", "energy"} {
+				r, ok := doc.Rates[name]
+				if !ok {
+					t.Fatalf("no %s rate in\n%s", name, buf.String())
+				}
+				if (r.Fitted != nil) != c.fitted || (r.FromRow != nil) != c.fitted {
+					t.Errorf("%s: fitted present %v, fitted_from_row present %v; want both %v", name, r.Fitted != nil, r.FromRow != nil, c.fitted)
+				}
+			}
+		})
 	}
 }
