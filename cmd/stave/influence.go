@@ -41,6 +41,9 @@ func influenceCommand(args []string, stdout io.Writer) error {
 	if *train < 1 {
 		return usageError{fmt.Sprintf("--train %d: count the trains from 1 along the file", *train)}
 	}
+	if set(fs, "train") && *out == "" && *sheet == "" { // as strayFlags: a flag that does nothing is refused
+		return usageError{"--train is for --out and --sheet, which show one train (the text and JSON give every train): leave it out, or add one of them"}
+	}
 	if *points < 1 || *points > 100000 {
 		return usageError{fmt.Sprintf("--points must be between 1 and 100000, got %d", *points)}
 	}

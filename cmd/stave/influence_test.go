@@ -269,7 +269,9 @@ func TestInfluenceCommandMisuse(t *testing.T) {
 		{[]string{"../../testdata/demo.json", "--quantity", "reaction", "--support", "9"}, 2, "--support 9: the member has"},
 		// One support is "1 support", not "1 supports".
 		{[]string{"../../testdata/cantilever_tip_load.json", "--quantity", "reaction", "--support", "2"}, 2, "--support 2: the member has 1 support;"},
-		{[]string{"../../testdata/moving/runway.json", "--quantity", "M", "--at", "1", "--train", "3"}, 2, "--train 3: ../../testdata/moving/runway.json has 2 trains"},
+		{[]string{"../../testdata/moving/runway.json", "--quantity", "M", "--at", "1", "--train", "3", "--sheet", "x.pdf"}, 2, "--train 3: ../../testdata/moving/runway.json has 2 trains"},
+		// --train picks the train --out and --sheet show: without them it did nothing, without a word.
+		{[]string{"../../testdata/moving/runway.json", "--quantity", "M", "--at", "1", "--train", "2"}, 2, "--train is for --out and --sheet"},
 		{[]string{"../../testdata/simply_supported_uniform.json", "--quantity", "M", "--at", "1", "--sheet", "x.pdf"}, 2, "has no train to put on a sheet"},
 		{[]string{"../../testdata/demo.json", "--quantity", "M", "--at", "1", "--support", "2"}, 2, "--support is for a reaction"},
 		{[]string{"../../testdata/demo.json", "--quantity", "M", "--at", "1", "--motion", "axial"}, 2, "--motion is for a reaction"},
