@@ -237,7 +237,9 @@ func TestInfluenceCommandValueAtTheJump(t *testing.T) {
 // point off the member, a support or train the file does not have, a
 // motion the support does not hold, a quantity with no influence line.
 // They exited 1, as if the model were refused; flags the target does not
-// read (--support for a moment, --at for a reaction) were ignored.
+// read (--support for a moment, --at for a reaction) were ignored. A line
+// the member's closed form leaves out (an elastic foundation) is no
+// misuse: no flag answers it, and the model is refused (exit 1).
 func TestInfluenceCommandMisuse(t *testing.T) {
 	for _, c := range []struct {
 		args []string
@@ -270,6 +272,9 @@ func TestInfluenceCommandMisuse(t *testing.T) {
 		// One support is "1 support", not "1 supports".
 		{[]string{"../../testdata/cantilever_tip_load.json", "--quantity", "reaction", "--support", "2"}, 2, "--support 2: the member has 1 support;"},
 		{[]string{"../../testdata/moving/runway.json", "--quantity", "M", "--at", "1", "--train", "3", "--sheet", "x.pdf"}, 2, "--train 3: ../../testdata/moving/runway.json has 2 trains"},
+		// A line the closed-form solution does not give for this member is the
+		// model's limit, not misuse: no flag would answer it (exit 1, README).
+		{[]string{"../../testdata/ground_beam_foundation.json", "--quantity", "M", "--at", "6"}, 1, "not available for a member with an elastic foundation across it"},
 		// --train picks the train --out and --sheet show: without them it did nothing, without a word.
 		{[]string{"../../testdata/moving/runway.json", "--quantity", "M", "--at", "1", "--train", "2"}, 2, "--train is for --out and --sheet"},
 		{[]string{"../../testdata/simply_supported_uniform.json", "--quantity", "M", "--at", "1", "--sheet", "x.pdf"}, 2, "has no train to put on a sheet"},
