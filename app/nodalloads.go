@@ -215,8 +215,12 @@ func (w *Window) showNodalTable() {
 	for k := range nodalColumns {
 		t.SetColumnWidth(k, 150)
 	}
-	note := widget.NewLabel(fmt.Sprintf("%d nodes of %d %s and %s elements. Consistent loads keep the resultant and its moment; lumped loads keep the forces only.",
-		len(nl.Nodes), len(nl.Elements), nl.Beam, nl.Bar))
+	kinds := nl.Bar // a member solved as a bar alone has no beam element
+	if nl.Beam != "" {
+		kinds = nl.Beam + " and " + nl.Bar
+	}
+	note := widget.NewLabel(fmt.Sprintf("%d nodes of %d %s elements. Consistent loads keep the resultant and its moment; lumped loads keep the forces only.",
+		len(nl.Nodes), len(nl.Elements), kinds))
 	note.Wrapping = fyne.TextWrapWord
 	d := dialog.NewCustom("Nodal loads of the line loads and self-weight", "Close", container.NewBorder(note, nil, nil, nil, t), w.win)
 	d.Resize(fyne.NewSize(960, 520))

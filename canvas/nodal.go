@@ -32,10 +32,14 @@ func (b *builder) nodalStrip(st stripPlace) {
 		b.line(faintColour, 0.75, Point{0, st.bottom}, Point{b.v.Width, st.bottom})
 	}()
 	force := b.u.Unit(units.Force).Symbol
+	consistent := fmt.Sprintf("consistent: ∫N·q dx over each %s element, forces and moments", nl.Beam)
+	if nl.Beam == "" { // a member solved as a bar alone: its axial loads only
+		consistent = fmt.Sprintf("consistent: ∫N·p dx over each %s element, forces", nl.Bar)
+	}
 	header := []legendItem{
 		{text: "Nodal loads of the line loads and self-weight [" + force + "]", size: titleSize, colour: consistentColour, bold: true},
 		{width: 18, swatch: func(x, y float32) { b.nodeArrow(x+9, y+5, -10, 1, false) },
-			text: fmt.Sprintf("consistent: ∫N·q dx over each %s element, forces and moments", nl.Beam), size: smallSize, colour: inkColour},
+			text: consistent, size: smallSize, colour: inkColour},
 		{width: 18, swatch: func(x, y float32) { b.nodeArrow(x+9, y+5, -10, 1, true) },
 			text: "lumped: half of each element's load on each node, no moments", size: smallSize, colour: inkColour},
 	}

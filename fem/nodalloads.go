@@ -8,7 +8,9 @@ package fem
 // would put there (forces only, no moments). Point loads, settlements and
 // temperature are left out: they are not spread over an element.
 type NodalLoads struct {
-	// Bar and Beam name the element formulations: "linear bar", "Hermite beam".
+	// Bar and Beam name the element formulations solved (ElementNames):
+	// "linear bar", "Hermite beam"; Beam is "" for a member solved as a bar
+	// alone.
 	Bar, Beam string
 	BarOrder  ElementOrder  // of the bar elements
 	Nodes     []NodeLoad    // per node of Mesh.X
@@ -71,20 +73,21 @@ func NodalLoadsOn(m *Model, mesh Mesh) (*NodalLoads, error) {
 	if err := checkMesh(pm, p.keys, mesh); err != nil {
 		return nil, err
 	}
-	return nodalLoads(pm, mesh, GatherLoads(pm, p.keys)), nil
+	return nodalLoads(pm, mesh, GatherLoads(pm, p.keys), p.bending), nil
 }
 
 // nodalLoads are those of the line loads and self-weight in l, gathered on
-// the key points of the prepared model pm, on mesh.
-func nodalLoads(pm *Model, mesh Mesh, l Loads) *NodalLoads {
+// the key points of the prepared model pm, on mesh; bending says the
+// member's bending is solved (Member.Bending).
+func nodalLoads(pm *Model, mesh Mesh, l Loads, bending bool) *NodalLoads {
 	l.Points, l.TemperatureChange = nil, 0 // line loads and self-weight alone
 	els, _ := elementTable(pm, mesh, mesh.X, &l)
-	bar, beam := pm.Formulations()
 	order := pm.Mesh.BarOrder
 	if order == 0 {
 		order = LinearBar
 	}
-	out := &NodalLoads{Bar: bar.Name(), Beam: beam.Name(), BarOrder: order, Resultant: l.Resultant(),
+	bar, beam := elementNames(pm, bending)
+	out := &NodalLoads{Bar: bar, Beam: beam, BarOrder: order, Resultant: l.Resultant(),
 		Nodes: make([]NodeLoad, len(mesh.X)), Elements: make([]ElementLoad, len(els))}
 	for i, x := range mesh.X {
 		out.Nodes[i].X = x
@@ -125,7 +128,22 @@ func nodalLoads(pm *Model, mesh Mesh, l Loads) *NodalLoads {
 // --json` show. For a load case or a combination they are its own loads
 // (a combination's the sum of its factored cases), not the model's.
 func (s *Solution) NodalLoads() *NodalLoads {
-	return nodalLoads(&s.Model, s.Mesh, s.loads)
+	return nodalLoads(&s.Model, s.Mesh, s.loads, !s.AxialOnly)
+}
+
+// ElementNames names the element formulations s was solved with, as
+// NodalLoads does: "linear bar", "Hermite beam"; the beam's is "" when the
+// member was solved as a bar alone (AxialOnly).
+func (s *Solution) ElementNames() (bar, beam string) { return elementNames(&s.Model, !s.AxialOnly) }
+
+// elementNames names the bar and beam elements of m, the beam's "" when
+// its bending is not solved.
+func elementNames(m *Model, bending bool) (bar, beam string) {
+	b, w := m.Formulations()
+	if !bending {
+		return b.Name(), ""
+	}
+	return b.Name(), w.Name()
 }
 
 // add3 adds the loads f at x to the sums r: forces, and the moment about x = 0.

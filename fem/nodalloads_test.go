@@ -290,3 +290,39 @@ func TestNodalLoadsOfCasesAndCombinations(t *testing.T) {
 		}
 	}
 }
+
+// The nodal loads name the elements solved: a member solved as a bar alone
+// (a rod under its own weight along it on an axial support, which holds
+// nothing across, or one declared axial-only) has no beam element, and its Beam is empty; it said "Hermite
+// beam". A beam under a load across it names its Hermite beam. On the
+// model's mesh (NodalLoadsOn) and on a solution's (Solution.NodalLoads).
+func TestNodalLoadsNameTheElementsSolved(t *testing.T) {
+	rod := func(declared bool) *fem.Model {
+		m := beamOn(4, 4, fem.LinearBar)
+		m.Supports = []fem.Support{{X: 0, Kind: fem.AxialOnly}}
+		m.Gravity = [2]float64{fem.StandardGravity, 0}
+		m.AxialOnly = declared
+		return m
+	}
+	for _, c := range []struct {
+		name      string
+		model     *fem.Model
+		bar, beam string
+	}{
+		{"rod under its weight along it", rod(false), "linear bar", ""},
+		{"declared axial-only", rod(true), "linear bar", ""},
+		{"beam under a load across", beamOn(4, 4, fem.LinearBar, uniform(fem.Transverse, 4, -10e3)), "linear bar", "Hermite beam"},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			s, err := fem.Solve(c.model)
+			if err != nil {
+				t.Fatal(err)
+			}
+			for how, nl := range map[string]*fem.NodalLoads{"NodalLoadsOn": nodalLoads(t, c.model), "Solution.NodalLoads": s.NodalLoads()} {
+				if nl.Bar != c.bar || nl.Beam != c.beam {
+					t.Errorf("%s: bar %q, beam %q; want %q, %q", how, nl.Bar, nl.Beam, c.bar, c.beam)
+				}
+			}
+		})
+	}
+}

@@ -359,7 +359,7 @@ const MaxNodalLoadsListed = 10_000
 // than MaxNodalLoadsListed, their sum and the load's own resultant.
 type nodalLoadsJSON struct {
 	Bar         string          `json:"bar"`
-	Beam        string          `json:"beam"`
+	Beam        *string         `json:"beam"` // null for a member solved as a bar alone
 	LoadedNodes *int            `json:"loaded_nodes"`
 	Listed      bool            `json:"nodes_listed"`
 	Nodes       []nodalLoadJSON `json:"nodes"`
@@ -392,11 +392,19 @@ func loadOf(r [3]float64) *loadSumJSON {
 	return &loadSumJSON{r[fem.Axial], r[fem.Transverse], r[fem.Rotation], "N", "N·m"}
 }
 
+// beamName is the beam element's name, nil (null) for none.
+func beamName(name string) *string {
+	if name == "" {
+		return nil
+	}
+	return &name
+}
+
 // nodalLoadsOf is nl as the results document lists it: the nodes with a
 // load, in order along the member, the middle nodes of quadratic bars
 // between their ends.
 func nodalLoadsOf(nl *fem.NodalLoads) *nodalLoadsJSON {
-	out := &nodalLoadsJSON{Bar: nl.Bar, Beam: nl.Beam, Nodes: []nodalLoadJSON{}, Sum: loadOf(nl.Consistent), Resultant: loadOf(nl.Resultant)}
+	out := &nodalLoadsJSON{Bar: nl.Bar, Beam: beamName(nl.Beam), Nodes: []nodalLoadJSON{}, Sum: loadOf(nl.Consistent), Resultant: loadOf(nl.Resultant)}
 	var loaded []nodalLoadJSON
 	for i, n := range nl.Nodes {
 		if n.Consistent != [3]float64{} {
@@ -420,8 +428,8 @@ func nodalLoadsOf(nl *fem.NodalLoads) *nodalLoadsJSON {
 // them, not worked out on a mesh of more than MaxNodalLoadsListed elements.
 func nodalLoadsOfSolution(s *fem.Solution) *nodalLoadsJSON {
 	if len(s.Mesh.Elements) > MaxNodalLoadsListed {
-		bar, beam := s.Model.Formulations()
-		return &nodalLoadsJSON{Bar: bar.Name(), Beam: beam.Name(), Nodes: []nodalLoadJSON{}}
+		bar, beam := s.ElementNames()
+		return &nodalLoadsJSON{Bar: bar, Beam: beamName(beam), Nodes: []nodalLoadJSON{}}
 	}
 	return nodalLoadsOf(s.NodalLoads())
 }

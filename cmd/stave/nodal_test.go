@@ -166,3 +166,42 @@ func TestSolveJSONNodalLoadsOfCases(t *testing.T) {
 		}
 	}
 }
+
+// solve --json names the elements solved: the beam of testdata under its
+// uniform load names its Hermite beam; the same member declared axial-only
+// under a load along it (the beam's loads taken off) has none, and its beam
+// is null, on a mesh whose loads are listed and on one too fine to list
+// them. It said "Hermite beam", a formulation that was not solved.
+func TestSolveJSONNodalLoadsNameOnlyTheElementsSolved(t *testing.T) {
+	tie := func(n int) func(m map[string]any) {
+		return func(m map[string]any) {
+			m["member"].(map[string]any)["axial_only"] = true
+			m["supports"] = []any{map[string]any{"x": 0, "kind": "pinned"}}
+			m["loads"] = []any{map[string]any{"kind": "distributed", "direction": "axial", "points": []any{[]any{0, 1e3}, []any{4, 1e3}}}}
+			elements(n)(m)
+		}
+	}
+	for _, c := range []struct {
+		name string
+		edit func(m map[string]any)
+		beam any
+	}{
+		{"beam", elements(8), "Hermite beam"},
+		{"tie", tie(8), nil},
+		{"tie on a fine mesh", tie(10001), nil},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			path := variant(t, t.TempDir(), "member", c.edit)
+			_, out, stderr := runStave(t, "solve", "--json", path)
+			var doc struct {
+				NodalLoads map[string]any `json:"nodal_loads"`
+			}
+			if err := json.Unmarshal([]byte(out), &doc); err != nil || doc.NodalLoads == nil {
+				t.Fatalf("solve --json: nodal_loads %v, error %v, stderr %q", doc.NodalLoads, err, stderr)
+			}
+			if beam, ok := doc.NodalLoads["beam"]; !ok || beam != c.beam || doc.NodalLoads["bar"] != "linear bar" {
+				t.Errorf("nodal_loads bar %v, beam %v; want linear bar, %v", doc.NodalLoads["bar"], beam, c.beam)
+			}
+		})
+	}
+}
