@@ -59,11 +59,11 @@ func TestNotesRefuseWhatAFileCannotHold(t *testing.T) {
 		text  string
 		want  string // in the message
 	}{
-		{"a control character", 2, "A. N.\aEngineer", "Engineer: holds the control character U+0007"},
-		{"a direction override", 0, "Bridge \u202e7", "Project: holds U+202E"},
-		{"a label too long", 1, strings.Repeat("J", storage.MaxLabelLength+1), "Member mark: is 1001 characters long"},
-		{"a tab in a label", 3, "2025\t03", "Date: holds the control character U+0009"},
-		{"remarks too long", 4, strings.Repeat("x", storage.MaxNotesLength+1), "Remarks: is 100001 characters long"},
+		{"a control character", 2, "A. N.\aEngineer", `Engineer: "A. N.\aEngineer" holds the control character U+0007`},
+		{"a direction override", 0, "Bridge \u202e7", `Project: "Bridge \u202e7" holds U+202E`},
+		{"a label too long", 1, strings.Repeat("J", storage.MaxLabelLength+1), `Member mark: "` + strings.Repeat("J", 40) + `… (1001 bytes in all)" is 1001 characters long`},
+		{"a tab in a label", 3, "2025\t03", `Date: "2025\t03" holds the control character U+0009`},
+		{"remarks too long", 4, strings.Repeat("x", storage.MaxNotesLength+1), `Remarks: "` + strings.Repeat("x", 40) + `… (100001 bytes in all)" is 100001 characters long`},
 		{"control: tabs and lines in the remarks", 4, "line one\n\tline two", ""},
 	} {
 		w, _ := newTestWindow(t, demoProject(t))

@@ -112,7 +112,10 @@ func TestDecodeSkipsAUTF8ByteOrderMark(t *testing.T) {
 	}
 }
 
-// Values of the demo file the loader must refuse, each at its path.
+// Values of the demo file the loader must refuse, each at its path. A text
+// refused is named, quoted with its invisible characters escaped and cut
+// short, as the loader quotes other values ("notes.project: is 1001
+// characters long" named none).
 func TestDecodeRefusesHostileValues(t *testing.T) {
 	demo := readDemo(t)
 	const name = `"name": "glued-laminated softwood (typical values)"`
@@ -127,14 +130,14 @@ func TestDecodeRefusesHostileValues(t *testing.T) {
 		{"bytes not UTF-8 in a name", name, "\"name\": \"glued-laminated \xe9\"", "member.segments[0].material.name", "not UTF-8 text"},
 		{"half a surrogate pair", `"engineer": "(demo)"`, `"engineer": "\ud800 (demo)"`, "notes.engineer", "half of a \\u surrogate pair"},
 		{"low half of a pair first", `"engineer": "(demo)"`, `"engineer": "\udc00\ud800"`, "notes.engineer", "not UTF-8 text"},
-		{"control character in a name", name, `"name": "soft\u0007wood"`, "member.segments[0].material.name", "control character U+0007 at character 5"},
-		{"tab in a label", `"member": "J-1"`, `"member": "J\t1"`, "notes.member", "U+0009"},
-		{"C1 control character", `"project": "Demo`, `"project": "\u0085Demo`, "notes.project", "U+0085 at character 1"},
+		{"control character in a name", name, `"name": "soft\u0007wood"`, "member.segments[0].material.name", `"soft\awood" holds the control character U+0007 at character 5`},
+		{"tab in a label", `"member": "J-1"`, `"member": "J\t1"`, "notes.member", `"J\t1" holds the control character U+0009`},
+		{"C1 control character", `"project": "Demo`, `"project": "\u0085Demo`, "notes.project", `"\u0085Demo`},
 		{"carriage return in the notes", `"text": "Invented`, `"text": "Invented\r\n`, "notes.text", "may hold tabs and line breaks, no other"},
-		{"direction override in a name", name, `"name": "\u202egniwollef"`, "member.segments[0].material.name", "U+202E at character 1, an invisible character that changes the direction"},
-		{"direction isolate in the notes", `"date": "2025-06-01"`, `"date": "2025\u2066-06-01"`, "notes.date", "U+2066"},
-		{"label too long", `"member": "J-1"`, `"member": "` + strings.Repeat("é", MaxLabelLength+1) + `"`, "notes.member", "is 1001 characters long, more than the 1000 allowed here"},
-		{"notes too long", `"text": "Invented`, `"text": "` + strings.Repeat("x", MaxNotesLength) + `Invented`, "notes.text", "more than the 100000 allowed here"},
+		{"direction override in a name", name, `"name": "\u202egniwollef"`, "member.segments[0].material.name", `"\u202egniwollef" holds U+202E at character 1, an invisible character that changes the direction`},
+		{"direction isolate in the notes", `"date": "2025-06-01"`, `"date": "2025\u2066-06-01"`, "notes.date", `"2025\u2066-06-01" holds U+2066`},
+		{"label too long", `"member": "J-1"`, `"member": "` + strings.Repeat("é", MaxLabelLength+1) + `"`, "notes.member", `"` + strings.Repeat("é", 40) + `… (2002 bytes in all)" is 1001 characters long, more than the 1000 allowed here`},
+		{"notes too long", `"text": "Invented`, `"text": "` + strings.Repeat("x", MaxNotesLength) + `Invented`, "notes.text", `"` + strings.Repeat("x", 40) + `… (`},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {

@@ -60,14 +60,16 @@ func escaped(s []byte) rune {
 // textFault says what is wrong with a label (notes false) or with the notes'
 // text (notes true), or returns "". Control characters and the characters
 // that override the direction of text would reach drawings and sheets,
-// where they hide or reorder what the engineer wrote.
+// where they hide or reorder what the engineer wrote. The message opens
+// with the text, cut short and quoted with such characters escaped.
 func textFault(s string, notes bool) string {
 	limit := MaxLabelLength
 	if notes {
 		limit = MaxNotesLength
 	}
+	quoted := func() string { return strconv.Quote(cut(s)) }
 	if n := utf8.RuneCountInString(s); n > limit {
-		return fmt.Sprintf("is %d characters long, more than the %d allowed here; shorten it", n, limit)
+		return fmt.Sprintf("%s is %d characters long, more than the %d allowed here; shorten it", quoted(), n, limit)
 	}
 	position := 0
 	for _, r := range s {
@@ -79,9 +81,9 @@ func textFault(s string, notes bool) string {
 			if notes {
 				allowed = "the notes may hold tabs and line breaks, no other control characters"
 			}
-			return fmt.Sprintf("holds the control character %U at character %d; remove it (%s)", r, position, allowed)
+			return fmt.Sprintf("%s holds the control character %U at character %d; remove it (%s)", quoted(), r, position, allowed)
 		case 0x202a <= r && r <= 0x202e || 0x2066 <= r && r <= 0x2069:
-			return fmt.Sprintf("holds %U at character %d, an invisible character that changes the direction of the text around it; remove it", r, position)
+			return fmt.Sprintf("%s holds %U at character %d, an invisible character that changes the direction of the text around it; remove it", quoted(), r, position)
 		}
 	}
 	return ""
