@@ -158,9 +158,9 @@ func densitySlips(u units.System) []slip {
 		case kgm3:
 			out = append(out,
 				mistyped("the unit weight", units.Unit{Symbol: "kN/m³", ToSI: 1000 / fem.StandardGravity}, kgm3).
-					saying("Did you type the unit weight in kN/m³ where kg/m³ is expected? Density is mass per volume: 78.5 kN/m³ ÷ 9.81 m/s² is 8000 kg/m³."),
+					saying("Did you type the unit weight in kN/m³ where kg/m³ is expected? Density is mass per volume: 78.5 kN/m³ ÷ 9.80665 m/s² (standard gravity) is 8005 kg/m³."),
 				mistyped("the unit weight", units.Unit{Symbol: "N/m³", ToSI: 1 / fem.StandardGravity}, kgm3).
-					saying("Did you type the unit weight in N/m³ where kg/m³ is expected? Density is mass per volume: divide it by 9.81 m/s²."),
+					saying("Did you type the unit weight in N/m³ where kg/m³ is expected? Density is mass per volume: divide it by 9.80665 m/s² (standard gravity)."),
 				mistyped("the density", units.Unit{Symbol: "t/m³", ToSI: 1000}, kgm3).
 					saying("Did you type the density in t/m³ or g/cm³ where kg/m³ is expected? Multiply by 1000 to get kg/m³."),
 				mistyped("the density", lbft3, kgm3))
@@ -292,8 +292,9 @@ const (
 
 func kindName(e Entry) string { return "typical " + e.Kind }
 
-// times writes a ratio in words with three figures and no exponent below
-// 10²¹: "1000 times", "1/16 of".
+// times writes a ratio in words with three figures, in e-notation from 10⁶
+// on as strconv's shortest 'g' writes it (and as the values beside it are
+// written): "1000 times", "1/16 of", "1/1e+09 of".
 func times(ratio float64) string {
 	three := func(v float64) string {
 		rounded, _ := strconv.ParseFloat(fmt.Sprintf("%.3g", v), 64)

@@ -119,8 +119,11 @@ func TestFarFromTypicalIn(t *testing.T) {
 		// 29,000 ksi typed in the GPa field: undone it is A992 steel.
 		{"SI: ksi typed in the GPa field", si, with(29000e9, 7850), []string{"ksi where GPa"}, nil},
 		// 78.5 kN/m³, steel's unit weight (EN 1991-1-1 Table A.4, from memory), typed as a density.
+		// The hint's example divides by standard gravity, 9.80665 m/s² exactly
+		// (3rd CGPM 1901, NIST SP 330, from memory): 78.5e3/9.80665 = 8004.77
+		// kg/m³ (computed); it said "÷ 9.81 m/s² is 8000 kg/m³", which is 8002.
 		{"SI: unit weight in kN/m³ typed as density", si, with(210e9, 78.5),
-			[]string{"density = 78.50 kg/m³ is 1/100 of that of typical steel (7850 kg/m³)", "unit weight in kN/m³"}, []string{"lb/ft³"}},
+			[]string{"density = 78.50 kg/m³ is 1/100 of that of typical steel (7850 kg/m³)", "unit weight in kN/m³", "78.5 kN/m³ ÷ 9.80665 m/s² (standard gravity) is 8005 kg/m³"}, []string{"lb/ft³", "9.81 m/s²"}},
 		{"SI: unit weight in N/m³ typed as density", si, with(210e9, 78500), []string{"unit weight in N/m³"}, nil},
 		{"SI: t/m³ typed as kg/m³", si, with(33e9, 2.4), []string{"t/m³"}, nil},
 		{"SI: lb/ft³ typed as kg/m³", si, with(210e9, 490), []string{"lb/ft³ where kg/m³", "1 lb/ft³ is 16.02 kg/m³"}, nil},
@@ -131,7 +134,9 @@ func TestFarFromTypicalIn(t *testing.T) {
 		{"SI: zero modulus", si, with(0, 7850), []string{"E = 0 GPa", "must be a positive number"}, nil},
 		{"SI: negative density", si, with(210e9, -1), []string{"density = -1.000 kg/m³ must be a finite number, not negative"}, nil},
 
-		{"file: GPa typed in a Pa field", base, with(210, 7850), []string{"E = 210.0 Pa", "GPa where Pa"}, nil},
+		// A ratio of 10⁹ in e-notation, as times() says and as the values
+		// beside it are written (its comment promised no exponent below 10²¹).
+		{"file: GPa typed in a Pa field", base, with(210, 7850), []string{"E = 210.0 Pa is 1/1e+09 of that of typical steel (2.100e+11 Pa)", "GPa where Pa"}, nil},
 		{"file: MPa typed in a Pa field", base, with(210000, 7850), []string{"MPa where Pa"}, nil},
 		{"file: psi typed in a Pa field", base, with(29e6, 7850), []string{"psi where Pa"}, nil},
 		{"no system: the file's units", units.System{}, with(210, 7850), []string{"E = 210.0 Pa", "GPa where Pa"}, nil},
