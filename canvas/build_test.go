@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"image/color"
 	"reflect"
+	"slices"
 	"strings"
 	"testing"
 
@@ -379,6 +380,41 @@ func TestCacheLendsNothingOfEarlierDrawings(t *testing.T) {
 		}
 		if !reflect.DeepEqual(*got, *want) {
 			t.Errorf("build %d: the scene differs with the Cache (handles, strips or scales)", i)
+		}
+	}
+}
+
+// A member solved as a bar alone names no beam elements in its strips'
+// legends: a hanging rod declared axial-only (demo data) shows its axial
+// force "FE, 4 linear bar elements" and its bending moment, zero, as
+// "FE, 4 elements", not as Hermite beam elements that were never solved.
+func TestAxialOnlyLegendsNameTheBarAlone(t *testing.T) {
+	m := &fem.Model{
+		AxialOnly: true,
+		Segments: []fem.Segment{{Start: 0, End: 4,
+			Section:  fem.Section{Area: 1e-3, SecondMoment: 1e-6, FibreDistance: 0.02},
+			Material: fem.Material{Elastic: 200e9, Density: 7850}}},
+		Supports:   []fem.Support{{X: 0, Kind: fem.Fixed}},
+		PointLoads: []fem.PointLoad{{X: 4, Axial: 10e3}},
+		Mesh:       fem.MeshSettings{Elements: 4},
+	}
+	in := solved(t, m)
+	if !in.Solution.AxialOnly {
+		t.Fatal("the member was not solved as a bar alone")
+	}
+	s := Build(in, NewView(1200, 900))
+	var legends []string
+	for _, it := range s.Items {
+		if it.Kind == Text && strings.HasPrefix(it.Text, "FE, ") {
+			legends = append(legends, it.Text)
+		}
+	}
+	if !slices.Contains(legends, "FE, 4 linear bar elements") || !slices.Contains(legends, "FE, 4 elements") {
+		t.Errorf("legends %q, want the axial force's %q and the bending moment's %q", legends, "FE, 4 linear bar elements", "FE, 4 elements")
+	}
+	for _, l := range legends {
+		if strings.Contains(l, "Hermite") {
+			t.Errorf("legend %q names beam elements on a member solved as a bar alone", l)
 		}
 	}
 }

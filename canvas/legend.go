@@ -95,8 +95,12 @@ func (b *builder) stripLegend(d diagram, exact bool) []legendItem {
 // axial stress and the beam's bending stress).
 func (b *builder) formulations(q fem.Quantity) []string {
 	bar, beam := b.in.Solution.Model.Formulations()
+	solved := []fem.Formulation{bar, beam}
+	if b.in.Solution.AxialOnly {
+		solved = solved[:1] // its bending is not solved
+	}
 	var names []string
-	for _, f := range []fem.Formulation{bar, beam} {
+	for _, f := range solved {
 		for _, p := range parts(q) {
 			if f.Varies(p).Degree >= 0 {
 				names = append(names, f.Name())
@@ -117,14 +121,19 @@ func parts(q fem.Quantity) []fem.Quantity {
 }
 
 // elementWords names the finite element curve of q: "FE, 8 Hermite beam
-// elements".
+// elements", or "FE, 8 elements" for a quantity no element solved gives
+// (the bending of a member solved as a bar alone, zero).
 func (b *builder) elementWords(q fem.Quantity) string {
 	n := len(b.in.Solution.Mesh.Elements)
 	plural := "s"
 	if n == 1 {
 		plural = ""
 	}
-	return fmt.Sprintf("FE, %d %s element%s", n, strings.Join(b.formulations(q), " + "), plural)
+	kinds := strings.Join(b.formulations(q), " + ")
+	if kinds != "" {
+		kinds += " "
+	}
+	return fmt.Sprintf("FE, %d %selement%s", n, kinds, plural)
 }
 
 // degreeWords names the degree of a polynomial.
