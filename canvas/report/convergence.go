@@ -107,7 +107,8 @@ func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Vers
 	if t.Exact {
 		fmt.Fprintf(w, "The finite element answer is exact for this model on every mesh tried (%d to %d elements): its errors are round-off, below %.0e,\n",
 			t.Rows[0].Elements, t.Rows[len(t.Rows)-1].Elements, study.RoundOff)
-		fmt.Fprintln(w, "as with point loads only, which linear bars and Hermite beams (with shear deformation too) reproduce between nodes. There is no rate to measure.")
+		fmt.Fprintln(w, "as the elements reproduce point loads and moments, settlements and temperature changes between nodes (linear bars and Hermite beams, with shear")
+		fmt.Fprintln(w, "deformation too), and a uniform axial load on quadratic bars. There is no rate to measure.")
 	} else {
 		fmt.Fprintf(w, "(errors relative: %s, %s, %s; rate = log(error ratio) / log(element ratio))\n",
 			fem.StressErrorName, fem.DisplacementErrorName, fem.EnergyErrorName)
