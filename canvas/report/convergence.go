@@ -43,12 +43,18 @@ type convergenceRowJSON struct {
 
 type rateJSON struct {
 	Fitted   *float64 `json:"fitted"`
-	FromRow  int      `json:"fitted_from_row"`
+	FromRow  *int     `json:"fitted_from_row"`
 	LastStep *float64 `json:"last_step"`
 }
 
+// rateOf is r as JSON: the first row fitted is null, as the fitted rate
+// is, when there is no fit.
 func rateOf(r study.Rate) rateJSON {
-	return rateJSON{jsonNumber(r.Fitted), r.From, jsonNumber(r.Last)}
+	out := rateJSON{Fitted: jsonNumber(r.Fitted), LastStep: jsonNumber(r.Last)}
+	if out.Fitted != nil {
+		out.FromRow = &r.From
+	}
+	return out
 }
 
 // WriteConvergenceJSON writes the convergence study t of the model in file

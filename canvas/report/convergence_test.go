@@ -2,6 +2,7 @@ package report
 
 import (
 	"bytes"
+	"encoding/json"
 	"context"
 	"fmt"
 	"math"
@@ -124,5 +125,49 @@ func TestConvergenceExactSaysWhichLoadsTheElementsReproduce(t *testing.T) {
 	text := buf.String()
 	if strings.Contains(text, "point loads only") || !strings.Contains(text, "a uniform axial load on quadratic bars") {
 		t.Errorf("the text does not say which loads the elements reproduce:\n%s", text)
+	}
+}
+
+// A study of one mesh fits no rate (docs/json.md: `fitted` and
+// `fitted_from_row` are null where there is none), nor does one whose
+// errors are all round-off: the document said the fit started from row 0.
+func TestConvergenceJSONFitsNoRowWithoutAFit(t *testing.T) {
+	beam := fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 4,
+			Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: 2e11}}},
+		Supports: []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}},
+	}
+	uniform, point := beam, beam
+	uniform.DistributedLoad = []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 4, Intensity: -10e3}}}}
+	point.PointLoads = []fem.PointLoad{{X: 1.3, Transverse: -10e3}}
+	for _, c := range []struct {
+		name string
+		m    fem.Model
+		max  int
+		fit  bool
+	}{{"one mesh", uniform, 1, false}, {"point load, exact", point, 4, false}, {"uniform load", uniform, 4, true}} {
+		table, err := study.Convergence(context.Background(), &c.m, c.max, units.Base)
+		if err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		var buf bytes.Buffer
+		if err := WriteConvergenceJSON(&buf, "member.json", table, nil, nil, nil); err != nil {
+			t.Fatal(err)
+		}
+		var got struct {
+			Rates map[string]struct {
+				Fitted  *float64 `json:"fitted"`
+				FromRow *int     `json:"fitted_from_row"`
+			} `json:"rates"`
+		}
+		if err := json.Unmarshal(buf.Bytes(), &got); err != nil {
+			t.Fatal(err)
+		}
+		for name, r := range got.Rates {
+			if (r.Fitted != nil) != c.fit || (r.FromRow != nil) != c.fit {
+				t.Errorf("%s, %s: fitted %v from row %v; want both given: %v", c.name, name, r.Fitted, r.FromRow, c.fit)
+			}
+		}
 	}
 }
