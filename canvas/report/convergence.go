@@ -131,9 +131,14 @@ func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Vers
 			}
 			return fmt.Sprintf("%s (last step %s, fitted from %s on)", RateText(r.Fitted), RateText(r.Last), units.Count(t.Rows[r.From].Elements, "element"))
 		}
-		fmt.Fprintf(w, "Rates: stress %s; displacement %s; energy %s\n", rate(t.Stress), rate(t.L2), rate(t.Energy))
+		if len(t.Rows) < 2 {
+			fmt.Fprintln(w, "Rates: none, from one mesh: a rate needs two meshes (a finer study has more).")
+		} else {
+			fmt.Fprintf(w, "Rates: stress %s; displacement %s; energy %s\n", rate(t.Stress), rate(t.L2), rate(t.Energy))
+		}
 		fmt.Fprintln(w, "Theory for smooth solutions (Strang & Fix): linear bars displacement 2, energy 1; quadratic bars 3 and 2; Hermite beams 4 and 2;")
 		fmt.Fprintln(w, "beams with shear deformation 2 and 1 under line loads, once the shear part leads (each element misses q·h²/(8·κGA) of the deflection, and its constant shear force up to q·h/2).")
+		fmt.Fprintln(w, "Stress error (from N and M alone): 1 for linear bars, 2 for quadratic bars and Hermite beams, shear deformation or not.")
 		fmt.Fprintln(w, "A member with both shows the beam's rates on coarse meshes and the bar's on fine ones; the fit takes the finest rows that agree.")
 		fmt.Fprintln(w, "Point loads, steps and partial loads on key points keep these rates, since the mesh has nodes there.")
 	}

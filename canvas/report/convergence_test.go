@@ -171,3 +171,51 @@ func TestConvergenceJSONFitsNoRowWithoutAFit(t *testing.T) {
 		}
 	}
 }
+
+// The table's first measure is the largest stress error, and the theory
+// lines must give its rate beside the others: the stress comes from N and
+// M, whose errors fall as the energy error does, h^p for elements of
+// degree p in the strain (Strang & Fix, ch. 1 and 3, from memory): 1 for
+// linear bars (a constant N against a linear one, off by up to q·h/2), 2
+// for Hermite beams (a linear M against a quadratic one, off by q·h²/12 at
+// the nodes under a uniform load q, by hand from the nodally exact
+// rotations). A study of one mesh has no rate, and says why.
+func TestConvergenceTextGivesTheStressRate(t *testing.T) {
+	base := fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 4,
+			Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: 2e11}}},
+	}
+	bar, beam := base, base
+	bar.Supports = []fem.Support{{X: 0, Kind: fem.Fixed}}
+	bar.DistributedLoad = []fem.DistributedLoad{{Direction: fem.Axial, Points: []fem.LoadPoint{{X: 0, Intensity: 10e3}, {X: 4, Intensity: 10e3}}}}
+	beam.Supports = []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}}
+	beam.DistributedLoad = []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 4, Intensity: -10e3}}}}
+	for _, c := range []struct {
+		name   string
+		m      fem.Model
+		theory float64
+	}{{"linear bar", bar, 1}, {"Hermite beam", beam, 2}} {
+		table, err := study.Convergence(context.Background(), &c.m, 16, units.Base)
+		if err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		if math.Abs(table.Stress.Fitted-c.theory) > 0.05 {
+			t.Errorf("%s: stress rate %.3f, theory %g", c.name, table.Stress.Fitted, c.theory)
+		}
+		var buf bytes.Buffer
+		WriteConvergenceText(&buf, c.name, table, nil, nil, nil)
+		if !strings.Contains(buf.String(), "Stress error (from N and M alone): 1 for linear bars, 2 for quadratic bars and Hermite beams") {
+			t.Errorf("%s: the theory lines give no rate for the stress:\n%s", c.name, buf.String())
+		}
+	}
+	one, err := study.Convergence(context.Background(), &beam, 1, units.Base)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var buf bytes.Buffer
+	WriteConvergenceText(&buf, "one mesh", one, nil, nil, nil)
+	if !strings.Contains(buf.String(), "a rate needs two meshes") {
+		t.Errorf("a study of one mesh does not say why it has no rate:\n%s", buf.String())
+	}
+}
