@@ -118,6 +118,9 @@ func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Vers
 	} else {
 		fmt.Fprintf(w, "(errors relative: %s, %s, %s; rate = log(error ratio) / log(element ratio))\n",
 			fem.StressErrorName, fem.DisplacementErrorName, fem.EnergyErrorName)
+		if t.LoadSets > 1 {
+			fmt.Fprintf(w, "(each error the largest over the model's %d load cases, each case against its own exact solution)\n", t.LoadSets)
+		}
 		tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', tabwriter.AlignRight)
 		fmt.Fprintln(tw, "per stretch\telements\tstress\trate\tdisplacement\trate\tenergy\trate\t")
 		for _, r := range t.Rows {

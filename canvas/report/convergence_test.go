@@ -2,8 +2,8 @@ package report
 
 import (
 	"bytes"
-	"encoding/json"
 	"context"
+	"encoding/json"
 	"fmt"
 	"math"
 	"strings"
