@@ -171,7 +171,7 @@ func WriteAdaptiveText(w io.Writer, v study.Versus, uniformErr error) {
 	case v.Adaptive.AtRoundOff:
 		fmt.Fprintln(w, "The target was not reached: the true error met the round-off of the last mesh (its condition estimate times ε), which finer meshes only raise.")
 	case !v.Adaptive.Reached:
-		fmt.Fprintln(w, "The target was not reached within the element limit.")
+		fmt.Fprintf(w, "The target was not reached within %s, the most this refinement may use.\n", units.Count(v.Adaptive.MaxElements, "element"))
 	}
 	switch {
 	case v.Exact:

@@ -219,3 +219,30 @@ func TestConvergenceTextGivesTheStressRate(t *testing.T) {
 		t.Errorf("a study of one mesh does not say why it has no rate:\n%s", buf.String())
 	}
 }
+
+// A refinement stopped by its element limit says what the limit was: the
+// text said "within the element limit", which the command line (100000)
+// and the window (20000) set differently. A linear bar's energy error
+// falls as h (Strang & Fix, ch. 1, from memory), so a target of 1e-6 on a
+// bar under a uniform axial load needs far more than 64 elements.
+func TestAdaptiveTextNamesTheElementLimit(t *testing.T) {
+	m := fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 4,
+			Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: 2e11}}},
+		Supports:        []fem.Support{{X: 0, Kind: fem.Fixed}},
+		DistributedLoad: []fem.DistributedLoad{{Direction: fem.Axial, Points: []fem.LoadPoint{{X: 0, Intensity: 10e3}, {X: 4, Intensity: 10e3}}}},
+	}
+	v, err := study.AgainstUniform(context.Background(), &m, 1e-6, 64, 1000, units.Base)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if v.Adaptive.Reached {
+		t.Fatalf("a target of 1e-6 reached within 64 linear bar elements: %+v", v.Adaptive.Iterations)
+	}
+	var buf bytes.Buffer
+	WriteAdaptiveText(&buf, v, nil)
+	if !strings.Contains(buf.String(), "The target was not reached within 64 elements, the most this refinement may use.") {
+		t.Errorf("the text does not name the element limit:\n%s", buf.String())
+	}
+}

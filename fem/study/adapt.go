@@ -27,8 +27,9 @@ type Adaptive struct {
 	Iterations []Iteration
 	Nodes      []float64 // final mesh, m
 	// Reached says the estimate and the true error both met the target
-	// within maxElements.
-	Reached bool
+	// within MaxElements, the most elements the refinement may use.
+	Reached     bool
+	MaxElements int
 	// AtRoundOff says the refinement stopped short of the target because
 	// the last mesh's true error is at its round-off (its condition
 	// estimate times ε, Row.RoundOff): finer meshes raise that floor, and
@@ -64,7 +65,7 @@ func Adapt(ctx context.Context, m *fem.Model, target float64, maxElements int, u
 		return Adaptive{}, fmt.Errorf("adaptive refinement starts from 2 elements per stretch (%d elements here); allow at least that many, got %d", start, maxElements)
 	}
 	nodes := Subdivide(keys, 2)
-	var out Adaptive
+	out := Adaptive{MaxElements: maxElements}
 	for {
 		if err := ctx.Err(); err != nil {
 			return out, err
