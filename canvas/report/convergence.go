@@ -116,7 +116,7 @@ func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Vers
 		fmt.Fprintln(w, "as the elements reproduce point loads and moments, settlements and temperature changes between nodes (linear bars and Hermite beams, with shear")
 		fmt.Fprintln(w, "deformation too), and a uniform axial load on quadratic bars. There is no rate to measure.")
 	} else {
-		fmt.Fprintf(w, "(errors relative: %s, %s, %s; rate = log(error ratio) / log(element ratio))\n",
+		fmt.Fprintf(w, "(errors relative: %s, %s, %s; rate = log(error ratio) / log(element ratio); - in the first row and where either error is at round-off)\n",
 			fem.StressErrorName, fem.DisplacementErrorName, fem.EnergyErrorName)
 		if t.LoadSets > 1 {
 			fmt.Fprintf(w, "(each error the largest over the model's %d load cases, each case against its own exact solution)\n", t.LoadSets)

@@ -246,3 +246,32 @@ func TestAdaptiveTextNamesTheElementLimit(t *testing.T) {
 		t.Errorf("the text does not name the element limit:\n%s", buf.String())
 	}
 }
+
+// A rate is not measured where an error is at round-off (study.Row), and
+// the table shows a dash there: the legend must say what the dash means.
+// Hermite beams under a uniform load have a displacement error falling as
+// h⁴ (Strang & Fix, ch. 1, from memory), 1.8e-1 on one element of a
+// simply supported span (integrated by hand from the element's error
+// q·s²(h − s)²/(24EI)), so below 1e-10 from about 256 elements on, while
+// the stress and energy errors (h²) stay above it.
+func TestConvergenceTextSaysWhatADashMeans(t *testing.T) {
+	m := fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 4,
+			Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: 2e11}}},
+		Supports:        []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}},
+		DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 4, Intensity: -10e3}}}},
+	}
+	table, err := study.Convergence(context.Background(), &m, 512, units.Base)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if last := table.Rows[len(table.Rows)-1]; !math.IsNaN(last.L2Rate) || math.IsNaN(last.EnergyRate) {
+		t.Fatalf("the finest row %+v: want the displacement at round-off and the energy above it", last)
+	}
+	var buf bytes.Buffer
+	WriteConvergenceText(&buf, "beam", table, nil, nil, nil)
+	if !strings.Contains(buf.String(), "- in the first row and where either error is at round-off") {
+		t.Errorf("the legend does not say what a dash in a rate column means:\n%s", buf.String())
+	}
+}
