@@ -47,6 +47,8 @@ type rateJSON struct {
 	LastStep *float64 `json:"last_step"`
 }
 
+// rateOf is r as JSON: the first row fitted is null, as the fitted rate
+// is, when there is no fit.
 func rateOf(r study.Rate) rateJSON {
 	out := rateJSON{Fitted: jsonNumber(r.Fitted), LastStep: jsonNumber(r.Last)}
 	if out.Fitted != nil {
@@ -111,10 +113,14 @@ func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Vers
 	if t.Exact {
 		fmt.Fprintf(w, "The finite element answer is exact for this model on every mesh tried (%d to %d elements): its errors are round-off, below %.0e,\n",
 			t.Rows[0].Elements, t.Rows[len(t.Rows)-1].Elements, study.RoundOff)
-		fmt.Fprintln(w, "as with point loads only, which linear bars and Hermite beams (with shear deformation too) reproduce between nodes. There is no rate to measure.")
+		fmt.Fprintln(w, "as the elements reproduce point loads and moments, settlements and temperature changes between nodes (linear bars and Hermite beams, with shear")
+		fmt.Fprintln(w, "deformation too), and a uniform axial load on quadratic bars. There is no rate to measure.")
 	} else {
-		fmt.Fprintf(w, "(errors relative: %s, %s, %s; rate = log(error ratio) / log(element ratio))\n",
+		fmt.Fprintf(w, "(errors relative: %s, %s, %s; rate = log(error ratio) / log(element ratio); - in the first row and where either error is at round-off)\n",
 			fem.StressErrorName, fem.DisplacementErrorName, fem.EnergyErrorName)
+		if t.LoadSets > 1 {
+			fmt.Fprintf(w, "(each error the largest over the model's %d load cases, each case against its own exact solution)\n", t.LoadSets)
+		}
 		tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', tabwriter.AlignRight)
 		fmt.Fprintln(tw, "per stretch\telements\tstress\trate\tdisplacement\trate\tenergy\trate\t")
 		for _, r := range t.Rows {
@@ -128,9 +134,14 @@ func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Vers
 			}
 			return fmt.Sprintf("%s (last step %s, fitted from %s on)", RateText(r.Fitted), RateText(r.Last), units.Count(t.Rows[r.From].Elements, "element"))
 		}
-		fmt.Fprintf(w, "Rates: stress %s; displacement %s; energy %s\n", rate(t.Stress), rate(t.L2), rate(t.Energy))
+		if len(t.Rows) < 2 {
+			fmt.Fprintln(w, "Rates: none, from one mesh: a rate needs two meshes (a finer study has more).")
+		} else {
+			fmt.Fprintf(w, "Rates: stress %s; displacement %s; energy %s\n", rate(t.Stress), rate(t.L2), rate(t.Energy))
+		}
 		fmt.Fprintln(w, "Theory for smooth solutions (Strang & Fix): linear bars displacement 2, energy 1; quadratic bars 3 and 2; Hermite beams 4 and 2;")
 		fmt.Fprintln(w, "beams with shear deformation 2 and 1 under line loads, once the shear part leads (each element misses q·h²/(8·κGA) of the deflection, and its constant shear force up to q·h/2).")
+		fmt.Fprintln(w, "Stress error (from N and M alone): 1 for linear bars, 2 for quadratic bars and Hermite beams, shear deformation or not.")
 		fmt.Fprintln(w, "A member with both shows the beam's rates on coarse meshes and the bar's on fine ones; the fit takes the finest rows that agree.")
 		fmt.Fprintln(w, "Point loads, steps and partial loads on key points keep these rates, since the mesh has nodes there.")
 	}
@@ -160,7 +171,7 @@ func WriteAdaptiveText(w io.Writer, v study.Versus, uniformErr error) {
 	case v.Adaptive.AtRoundOff:
 		fmt.Fprintln(w, "The target was not reached: the true error met the round-off of the last mesh (its condition estimate times ε), which finer meshes only raise.")
 	case !v.Adaptive.Reached:
-		fmt.Fprintln(w, "The target was not reached within the element limit.")
+		fmt.Fprintf(w, "The target was not reached within %s, the most this refinement may use.\n", units.Count(v.Adaptive.MaxElements, "element"))
 	}
 	switch {
 	case v.Exact:

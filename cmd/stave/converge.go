@@ -19,7 +19,7 @@ import (
 func convergeCommand(args []string, stdout io.Writer) error {
 	fs := newFlagSet("converge")
 	asJSON := fs.Bool("json", false, "print the study as JSON")
-	maxPer := fs.Int("max", 64, "finest mesh: elements in every stretch between key points")
+	maxPer := fs.Int("max", 64, "finest mesh: the study solves 1, 2, 4, ... elements in every stretch between key points, up to the largest power of two not above this")
 	target := fs.Float64("target", 0, "also refine adaptively until the estimated and the true relative energy error are both at most this (e.g. 0.01)")
 	system := fs.String("units", "", "unit system the warnings are written in: SI or US (default: the file's display units)")
 	path, err := parseOneFile(fs, args, stdout)

@@ -929,3 +929,28 @@ func TestUsageNamesEveryFlag(t *testing.T) {
 		}
 	}
 }
+
+// The study doubles the mesh from 1 element per stretch, so --max 100 ends
+// at 64 (the largest power of two not above it): the help said only
+// "finest mesh", and a study asked for 100 ended at 64 unexplained.
+func TestConvergeMaxIsRoundedDownToAPowerOfTwo(t *testing.T) {
+	code, out, stderr := runStave(t, "converge", "--json", "--max", "100", "../../testdata/two_span_uniform.json")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	var got struct {
+		Rows []struct {
+			PerStretch int `json:"elements_per_stretch"`
+		} `json:"rows"`
+	}
+	if err := json.Unmarshal([]byte(out), &got); err != nil {
+		t.Fatal(err)
+	}
+	if n := len(got.Rows); n != 7 || got.Rows[n-1].PerStretch != 64 {
+		t.Fatalf("rows %+v, want 1, 2, ..., 64 per stretch", got.Rows)
+	}
+	_, help, _ := runStave(t, "converge", "--help")
+	if !strings.Contains(help, "1, 2, 4, ... elements in every stretch between key points, up to the largest power of two not above this") {
+		t.Errorf("converge --help does not say how the finest mesh follows from --max:\n%s", help)
+	}
+}

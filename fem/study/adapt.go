@@ -16,7 +16,8 @@ import (
 type Iteration struct {
 	Elements int
 	// Estimated is the recovery-based relative energy-norm error,
-	// η/√(‖u_h‖² + η²); True is fem.Compare's RelativeEnergy.
+	// η/√(‖u_h‖² + η²); True is fem.Compare's RelativeEnergy; of a model
+	// with load cases, each the largest over its cases.
 	Estimated, True float64
 	Effectivity     float64 // Estimated / True; NaN when True is at round-off
 }
@@ -26,8 +27,9 @@ type Adaptive struct {
 	Iterations []Iteration
 	Nodes      []float64 // final mesh, m
 	// Reached says the estimate and the true error both met the target
-	// within maxElements.
-	Reached bool
+	// within MaxElements, the most elements the refinement may use.
+	Reached     bool
+	MaxElements int
 	// AtRoundOff says the refinement stopped short of the target because
 	// the last mesh's true error is at its round-off (its condition
 	// estimate times ε, Row.RoundOff): finer meshes raise that floor, and
@@ -55,7 +57,7 @@ func Adapt(ctx context.Context, m *fem.Model, target float64, maxElements int, u
 	if !(target > 0) {
 		return Adaptive{}, fmt.Errorf("adaptive refinement: the target error must be positive, got %g", target)
 	}
-	exact, keys, err := prepare(m, "adaptive refinement", u)
+	exacts, keys, err := prepare(m, "adaptive refinement", u)
 	if err != nil {
 		return Adaptive{}, err
 	}
@@ -63,17 +65,18 @@ func Adapt(ctx context.Context, m *fem.Model, target float64, maxElements int, u
 		return Adaptive{}, fmt.Errorf("adaptive refinement starts from 2 elements per stretch (%d elements here); allow at least that many, got %d", start, maxElements)
 	}
 	nodes := Subdivide(keys, 2)
-	var out Adaptive
+	out := Adaptive{MaxElements: maxElements}
 	for {
 		if err := ctx.Err(); err != nil {
 			return out, err
 		}
-		s, err := solveOn(m, nodes, u)
+		sols, err := solveOn(m, nodes, u)
 		if err != nil {
 			return out, err
 		}
-		indicators, estimated := Estimate(s, keys)
-		it := Iteration{Elements: len(s.Mesh.Elements), Estimated: estimated, True: fem.Compare(s, exact).RelativeEnergy}
+		s := sols[0]
+		indicators, estimated, trueError := estimateSets(sols, exacts, keys)
+		it := Iteration{Elements: len(s.Mesh.Elements), Estimated: estimated, True: trueError}
 		it.Effectivity = math.NaN()
 		if it.True > RoundOff {
 			it.Effectivity = it.Estimated / it.True
@@ -94,6 +97,39 @@ func Adapt(ctx context.Context, m *fem.Model, target float64, maxElements int, u
 		}
 		nodes = refined
 	}
+}
+
+// estimateSets estimates the error of every load set's solution on one
+// mesh (Estimate) and measures it against that set's exact solution: the
+// largest estimated and true relative energy errors over the sets, and
+// each element's largest indicator relative to its set's (η_e scaled as
+// the set's η is to its relative estimate), so that a small case does not
+// hide where a large one needs elements. One set keeps its indicators'
+// proportions, which bisect reads.
+func estimateSets(sols []*fem.Solution, exacts []*fem.Exact, keys []float64) (indicators []float64, estimated, trueError float64) {
+	for i, s := range sols {
+		ind, est := Estimate(s, keys)
+		estimated = math.Max(estimated, est)
+		trueError = math.Max(trueError, fem.Compare(s, exacts[i]).RelativeEnergy)
+		if len(sols) == 1 {
+			return ind, estimated, trueError
+		}
+		eta := 0.0
+		for _, v := range ind {
+			eta += v * v
+		}
+		scale := 0.0
+		if eta > 0 {
+			scale = est / math.Sqrt(eta)
+		}
+		if indicators == nil {
+			indicators = make([]float64, len(ind))
+		}
+		for e, v := range ind {
+			indicators[e] = math.Max(indicators[e], v*scale)
+		}
+	}
+	return indicators, estimated, trueError
 }
 
 // bisect halves every element whose indicator is at least refineFraction of
@@ -262,11 +298,7 @@ func AgainstUniform(ctx context.Context, m *fem.Model, target float64, maxElemen
 		v.Exact = true
 		return v, nil
 	}
-	p, err := fem.PrepareIn(m, u)
-	if err != nil {
-		return v, err
-	}
-	exact, err := p.Exact()
+	exacts, _, err := prepare(m, "uniform refinement", u)
 	if err != nil {
 		return v, err
 	}
@@ -283,11 +315,15 @@ func AgainstUniform(ctx context.Context, m *fem.Model, target float64, maxElemen
 		if err != nil {
 			return 0, 0, 0, err
 		}
-		s, err := p.Solve(p.Mesh())
+		sols, err := p.SolveLoadSets(p.Mesh())
 		if err != nil {
 			return 0, 0, 0, err
 		}
-		return len(s.Mesh.Elements), fem.Compare(s, exact).RelativeEnergy, s.Condition, nil
+		e := 0.0
+		for i, s := range sols {
+			e = math.Max(e, fem.Compare(s, exacts[i]).RelativeEnergy)
+		}
+		return len(sols[0].Mesh.Elements), e, sols[0].Condition, nil
 	}
 	// Double to bracket the answer, then bisect on the requested count.
 	low, high := 0, 1

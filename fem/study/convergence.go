@@ -4,8 +4,9 @@
 //
 // Convergence solves a model on meshes with 1, 2, 4, ... elements in every
 // stretch between key points and tabulates the error against the exact
-// solution (fem.SolveExact, fem.Compare) with the observed rates. For a
-// smooth exact solution, theory predicts an energy-norm error O(h^(p+1−m))
+// solution (fem.SolveExact, fem.Compare) with the observed rates; a model
+// with load cases is measured case by case, each error the largest over
+// its cases. For a smooth exact solution, theory predicts an energy-norm error O(h^(p+1−m))
 // and a displacement L2 error O(h^(p+1)), where p is the polynomial degree
 // of the element and m the order of the derivative in the strain energy (1
 // for bars, 2 for beams) (Strang & Fix, An Analysis of the Finite Element
@@ -43,7 +44,8 @@ import (
 type Row struct {
 	PerStretch int // elements in every stretch between key points
 	Elements   int
-	// Errors against the exact solution, relative (see fem.ErrorNorms).
+	// Errors against the exact solution, relative (see fem.ErrorNorms):
+	// of a model with load cases, the largest over its cases.
 	MaxStress, L2, Energy float64
 	// RoundOff is the relative error at or below which this mesh's errors
 	// are round-off: the larger of the study's RoundOff and the solution's
@@ -68,6 +70,9 @@ type Table struct {
 	// The rates of each measure: fitted over the asymptotic rows and that
 	// of the last step (Rate).
 	Stress, L2, Energy Rate
+	// LoadSets is how many load sets were measured: the model's load
+	// cases, or 1 for its own loads.
+	LoadSets int
 }
 
 // Rate is the observed rate of one error measure.
@@ -110,7 +115,7 @@ func Convergence(ctx context.Context, m *fem.Model, maxPerStretch int, u units.S
 	if maxPerStretch < 1 {
 		return Table{}, fmt.Errorf("convergence study: the finest mesh must have at least 1 element per stretch, got %d", maxPerStretch)
 	}
-	exact, keys, err := prepare(m, "convergence study", u)
+	exacts, keys, err := prepare(m, "convergence study", u)
 	if err != nil {
 		return Table{}, err
 	}
@@ -125,18 +130,23 @@ func Convergence(ctx context.Context, m *fem.Model, maxPerStretch int, u units.S
 		}
 		return Table{}, TooFineError{Finest: finest, Fits: fit, Err: err}
 	}
-	var t Table
+	t := Table{LoadSets: len(exacts)}
 	for k := 1; k <= maxPerStretch; k *= 2 {
 		if err := ctx.Err(); err != nil {
 			return Table{}, err
 		}
-		s, err := solveOn(m, Subdivide(keys, k), u)
+		sols, err := solveOn(m, Subdivide(keys, k), u)
 		if err != nil {
 			return Table{}, fmt.Errorf("convergence study, %d elements per stretch: %w", k, err)
 		}
-		norms := fem.Compare(s, exact)
-		row := Row{PerStretch: k, Elements: len(s.Mesh.Elements), RoundOff: roundOffOf(s.Condition),
-			MaxStress: norms.MaxStressRelative, L2: norms.RelativeL2, Energy: norms.RelativeEnergy}
+		s := sols[0]
+		row := Row{PerStretch: k, Elements: len(s.Mesh.Elements), RoundOff: roundOffOf(s.Condition)}
+		for i, s := range sols {
+			norms := fem.Compare(s, exacts[i])
+			row.MaxStress = math.Max(row.MaxStress, norms.MaxStressRelative)
+			row.L2 = math.Max(row.L2, norms.RelativeL2)
+			row.Energy = math.Max(row.Energy, norms.RelativeEnergy)
+		}
 		row.StressRate, row.L2Rate, row.EnergyRate = math.NaN(), math.NaN(), math.NaN()
 		if n := len(t.Rows); n > 0 {
 			prev := t.Rows[n-1]
@@ -216,19 +226,20 @@ func fittedRate(rows []Row, value func(Row) float64) float64 {
 	return sxy / sxx
 }
 
-// prepare solves m exactly and returns the nodes every mesh of m must
-// hold (one element per stretch between key points); what names the study
-// in errors, whose values fem quotes in u.
-func prepare(m *fem.Model, what string, u units.System) (*fem.Exact, []float64, error) {
+// prepare solves every load set of m exactly (its load cases, or its own
+// loads; fem.Member.ExactLoadSets) and returns the solutions with the nodes
+// every mesh of m must hold (one element per stretch between key points);
+// what names the study in errors, whose values fem quotes in u.
+func prepare(m *fem.Model, what string, u units.System) ([]*fem.Exact, []float64, error) {
 	p, err := fem.PrepareIn(m, u)
 	if err != nil {
 		return nil, nil, fmt.Errorf("%s needs the exact solution: %w", what, err)
 	}
-	exact, err := p.Exact()
+	exacts, err := p.ExactLoadSets()
 	if err != nil {
 		return nil, nil, fmt.Errorf("%s needs the exact solution: %w", what, err)
 	}
-	return exact, fem.KeyPoints(m), nil
+	return exacts, fem.KeyPoints(m), nil
 }
 
 // Subdivide splits every interval of nodes into k equal parts: the nodes of
@@ -280,9 +291,10 @@ func fits(m *fem.Model, k, n int) error {
 	return um.Validate()
 }
 
-// solveOn solves m on a mesh of nodes and the key points (fem.MeshFromNodes),
-// fem's messages quoting values in u.
-func solveOn(m *fem.Model, nodes []float64, u units.System) (*fem.Solution, error) {
+// solveOn solves every load set of m (fem.Member.SolveLoadSets) on a mesh
+// of nodes and the key points (fem.Member.MeshOn), fem's messages quoting
+// values in u.
+func solveOn(m *fem.Model, nodes []float64, u units.System) ([]*fem.Solution, error) {
 	p, err := fem.PrepareIn(m, u)
 	if err != nil {
 		return nil, err
@@ -291,5 +303,5 @@ func solveOn(m *fem.Model, nodes []float64, u units.System) (*fem.Solution, erro
 	if err != nil {
 		return nil, err
 	}
-	return p.Solve(mesh)
+	return p.SolveLoadSets(mesh)
 }

@@ -453,3 +453,75 @@ func TestStudyRefusalInDisplayUnits(t *testing.T) {
 		}
 	}
 }
+
+// A model with load cases is solved case by case (fem.Model.LoadSet), and
+// a study must measure every case: it measured the first alone, so a
+// model whose first case is a point load (which Hermite beams reproduce,
+// Hughes, ch. 1, nodal exactness in one dimension, from memory) and whose
+// second is a uniform load was called exact for the model, and its
+// adaptive refinement stopped on the first mesh. Each row takes the
+// largest error over the cases: here the uniform case's. On a simply
+// supported span under a uniform load q, elements of length h with exact
+// nodal rotations carry the mean moment, off by q·h²/12 at their ends
+// against the exact largest qL²/8 (Gere & Goodno, simple beam, uniform
+// load), so the stress error is (2/3)(h/L)²; the energy of the difference
+// over the exact energy is (h/L)⁴/6 (integrated by hand). With the point
+// load's key point at midspan, 1 element per stretch is h = L/2.
+func TestStudiesMeasureEveryLoadCase(t *testing.T) {
+	m := member(4, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}})
+	m.Cases = []fem.LoadCase{
+		{Name: "point", PointLoads: []fem.PointLoad{{X: 2, Transverse: -10e3}}},
+		{Name: "uniform", DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse,
+			Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 4, Intensity: -10e3}}}}},
+	}
+	table, err := Convergence(context.Background(), &m, 4, units.Base)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if table.Exact {
+		t.Fatal("a model with a uniform load case is called exact")
+	}
+	if table.LoadSets != 2 {
+		t.Errorf("%d load sets measured, want the model's 2 cases", table.LoadSets)
+	}
+	const hOverL = 0.5
+	row := table.Rows[0]
+	if want := 2.0 / 3 * hOverL * hOverL; math.Abs(row.MaxStress-want) > 1e-9*want {
+		t.Errorf("stress error on 1 element per stretch %.6g, want %.6g (the uniform case's)", row.MaxStress, want)
+	}
+	if want := math.Sqrt(math.Pow(hOverL, 4) / 6); math.Abs(row.Energy-want) > 1e-9*want {
+		t.Errorf("energy error on 1 element per stretch %.6g, want %.6g (the uniform case's)", row.Energy, want)
+	}
+	if math.Abs(table.Energy.Fitted-2) > 0.05 {
+		t.Errorf("energy rate %.3f, want 2 (Hermite beams)", table.Energy.Fitted)
+	}
+	const target = 0.01
+	v, err := AgainstUniform(context.Background(), &m, target, 1000, 1000, units.Base)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if v.Exact || !v.Adaptive.Reached {
+		t.Fatalf("adaptive refinement: exact %v, reached %v; want a refinement that reaches %g", v.Exact, v.Adaptive.Reached, target)
+	}
+	// The uniform case alone, solved on the final mesh, meets the target.
+	uniform := m.LoadSet(1)
+	p, err := fem.Prepare(&uniform)
+	if err != nil {
+		t.Fatal(err)
+	}
+	mesh, err := p.MeshOn(v.Adaptive.Nodes)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s, err := p.Solve(mesh)
+	if err != nil {
+		t.Fatal(err)
+	}
+	exact, err := p.Exact()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if e := fem.Compare(s, exact).RelativeEnergy; e > target || math.Abs(e-v.AdaptiveTrue) > 1e-9*e {
+		t.Errorf("the uniform case on the final mesh has energy error %.4g; reported %.4g, target %g", e, v.AdaptiveTrue, target)
+	}
+}
