@@ -129,11 +129,18 @@ func (s *solver) send(a result) {
 
 func (s *solver) run() {
 	defer s.done.Done()
+	keepingUp := true // the last request got both stages
 	for {
 		select {
 		case <-s.ctx.Done():
 			return
 		case r := <-s.mailbox:
+			// The exact solution is started beside the finite element
+			// solve only while both stages keep up with the edits: in a
+			// drag that outruns them the second stage is skipped, and the
+			// work would be thrown away.
+			r.ExactAhead = keepingUp
+			keepingUp = false // until this request is finished
 			a, err := s.stages.solve(s.ctx, r)
 			if err != nil {
 				return // stopped
@@ -153,6 +160,7 @@ func (s *solver) run() {
 				continue
 			}
 			s.send(full)
+			keepingUp = true
 		}
 	}
 }

@@ -26,10 +26,14 @@ func quickStages(solve func(r request)) stages {
 // TestSolverKeepsOnlyTheNewest holds the worker busy on the first request
 // while 999 more arrive: it must solve only the first and the last, and
 // deliver only the last, first without and then with its second stage.
+// The exact solution is asked to start beside the first stage only while
+// the stages keep up: for the first request, not for the one after a
+// request dropped unfinished, and again once one is finished.
 func TestSolverKeepsOnlyTheNewest(t *testing.T) {
 	release := make(chan struct{})
 	started := make(chan uint64, 10)
 	var analysed []uint64 // written by the worker, read after stop
+	ahead := map[uint64]bool{}
 	q := &uiQueue{}
 	var delivered []result
 	s := newSolver(quickStages(func(r request) {
@@ -38,6 +42,7 @@ func TestSolverKeepsOnlyTheNewest(t *testing.T) {
 			<-release
 		}
 		analysed = append(analysed, r.seq)
+		ahead[r.seq] = r.ExactAhead
 	}), q.post, func(a result) { delivered = append(delivered, a) })
 
 	m := newMember(1)
@@ -51,8 +56,16 @@ func TestSolverKeepsOnlyTheNewest(t *testing.T) {
 	}
 	close(release)
 	q.waitFor(t, "the newest complete result", func() bool { return len(delivered) > 0 && delivered[len(delivered)-1].Complete })
+	<-started
+	s.submit(m, nil, check.Options{})
+	<-started
+	q.waitFor(t, "the next complete result", func() bool { return delivered[len(delivered)-1].seq == 1001 && delivered[len(delivered)-1].Complete })
 	s.stop()
 	q.drain()
+	if !ahead[1] || ahead[1000] || !ahead[1001] {
+		t.Errorf("exact solution asked ahead for requests 1, 1000, 1001: %v, %v, %v; want true, false, true", ahead[1], ahead[1000], ahead[1001])
+	}
+	delivered, analysed = delivered[:len(delivered)-2], analysed[:len(analysed)-1]
 	if len(delivered) != 2 || delivered[0].seq != 1000 || delivered[1].seq != 1000 || delivered[0].Complete || delivered[1].Model.Mesh.Elements != 1000 {
 		t.Errorf("delivered %+v; want request 1000 (1000 elements) twice, first without its second stage", delivered)
 	}

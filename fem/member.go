@@ -31,6 +31,9 @@ type Member struct {
 	exactStructure *ExactStructure
 	exact          *Exact
 	exactErr       error
+	// exactPanic is what working the exact solution out panicked with,
+	// raised again by every later call (solveExact).
+	exactPanic any
 }
 
 // Prepare validates m and gathers what every solve of it needs. A model
@@ -197,13 +200,21 @@ func (p *Member) ExactStructure() (*ExactStructure, error) {
 }
 
 // solveExact finds the exact structure and the exact solution under the
-// member's own loads, the first time it is called.
+// member's own loads, the first time it is called. Should that panic, the
+// panic is kept and raised again by this and every later call, in the
+// caller's goroutine: a sync.Once counts a panicking call as done, and the
+// exact solution would read as nil without an error (the first call may be
+// on a goroutine of its own, see package fem/analysis).
 func (p *Member) solveExact() {
 	p.exactOnce.Do(func() {
+		defer func() { p.exactPanic = recover() }()
 		if p.mechanism != nil {
 			p.exactErr = p.mechanism
 			return
 		}
 		p.exactStructure, p.exact, p.exactErr = newExactStructure(p)
 	})
+	if p.exactPanic != nil {
+		panic(p.exactPanic)
+	}
 }

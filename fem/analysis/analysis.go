@@ -8,9 +8,10 @@
 // An analysis runs in two stages: Solve gives the finite element result,
 // which is all a drawing needs, and Finish adds the exact solution and the
 // checks, which cost more; Run does both. The window shows the first stage
-// while the user drags and the second when the mouse rests. Solve starts
-// the exact solution on a goroutine of its own beside the finite element
-// solve, which needs nothing of it, and Finish waits for it.
+// while the user drags and the second when the mouse rests. Where Finish
+// will follow (Request.ExactAhead; Run), Solve starts the exact solution on
+// a goroutine of its own beside the finite element solve, and Finish waits
+// for it.
 package analysis
 
 import (
@@ -40,6 +41,11 @@ type Request struct {
 	// moving.Train.Label does, for the findings on the combinations that
 	// take them (fem.Combination.Trains); nil names them by number.
 	TrainLabels []string
+	// ExactAhead asks Solve to start the exact solution beside the finite
+	// element solve, for a Finish that will follow (Run sets it). A caller
+	// that may drop the first stage unfinished (a window during a drag)
+	// leaves it unset while it does, or the work would be thrown away.
+	ExactAhead bool
 }
 
 // Analysis is what the stages found for one model.
@@ -75,16 +81,20 @@ type Analysis struct {
 }
 
 // prepared is a member prepared by Solve, with the work of its exact
-// solution started ahead of Finish where Solve could start it: the finite
+// solution started ahead of Finish where Solve could start it: on a mesh
+// of its own (given nodes, or the model's element counts) the finite
 // element solve needs nothing of the exact solution, so the two share the
-// cores, and Finish waits for it.
+// cores, and Finish waits for it. (The automatic mesh is chosen from the
+// exact solution, so there the finite element solve waits for it.)
 type prepared struct {
 	member *fem.Member
 	ahead  *ahead // nil when Solve started none
 }
 
 // exact is the member's exact solution, once the work ahead has ended
-// (fem.Member works it out once and keeps it).
+// (fem.Member works it out once and keeps it, or the panic it met, which
+// it raises again here, in the caller's goroutine, where a caller may
+// recover it: a batch check does).
 func (pr *prepared) exact() (*fem.Exact, error) {
 	pr.ahead.wait()
 	return pr.member.Exact()
@@ -93,17 +103,15 @@ func (pr *prepared) exact() (*fem.Exact, error) {
 // aheadToken is held while one piece of work runs ahead (startAhead).
 var aheadToken atomic.Bool
 
-// ahead is work running on a goroutine of its own.
-type ahead struct {
-	done     chan struct{} // closed when the work ends
-	panicked any           // what it panicked with, or nil
-}
+// ahead is work running on a goroutine of its own; done is closed when it
+// ends.
+type ahead struct{ done chan struct{} }
 
 // startAhead runs work on a goroutine of its own, unless other work is
 // running ahead: then it returns nil and the caller does the work when it
-// needs it. Only one runs at a time because a window's drag submits models
-// faster than it finishes them and skips Finish for all but the last, so a
-// second start while one runs would only pile up work nobody waits for.
+// needs it. Only one runs at a time, so that work nobody waits for any
+// more cannot pile up. A panic of work ends the work alone: work must keep
+// it for whoever needs its result (fem.Member does).
 func startAhead(work func()) *ahead {
 	if !aheadToken.CompareAndSwap(false, true) {
 		return nil
@@ -111,7 +119,7 @@ func startAhead(work func()) *ahead {
 	w := &ahead{done: make(chan struct{})}
 	go func() {
 		defer func() {
-			w.panicked = recover()
+			_ = recover()           // kept by work and raised again where it is needed
 			aheadToken.Store(false) // free before the waiter wakes
 			close(w.done)
 		}()
@@ -120,16 +128,10 @@ func startAhead(work func()) *ahead {
 	return w
 }
 
-// wait waits for the work to end and raises its panic again, in the
-// caller's goroutine, where a caller may recover it (a batch check does).
-// Nothing to wait for on a nil w.
+// wait waits for the work to end; nothing to wait for on a nil w.
 func (w *ahead) wait() {
-	if w == nil {
-		return
-	}
-	<-w.done
-	if w.panicked != nil {
-		panic(w.panicked)
+	if w != nil {
+		<-w.done
 	}
 }
 
@@ -157,16 +159,30 @@ func Solve(ctx context.Context, r Request) (Analysis, error) {
 		a.Err = err
 		return a, nil
 	}
-	a.prepared = &prepared{member: p, ahead: startAhead(func() { p.Exact() })}
-	var mesh fem.Mesh
-	if r.Nodes == nil {
-		mesh = p.Mesh()
-	} else if mesh, err = p.MeshOn(r.Nodes); err != nil {
-		a.Err = fmt.Errorf("the refined mesh does not fit the model: %w", err)
+	a.prepared = &prepared{member: p}
+	if r.ExactAhead {
+		a.prepared.ahead = startAhead(func() { p.Exact() })
+	}
+	mesh, err := meshFor(p, r.Nodes)
+	if err != nil {
+		a.Err = err
 		return a, nil
 	}
 	a.Solution, a.Err = p.Solve(mesh)
 	return a, nil
+}
+
+// meshFor is the mesh to solve p on: on nodes (an adaptive mesh) when not
+// nil, else the model's own.
+func meshFor(p *fem.Member, nodes []float64) (fem.Mesh, error) {
+	if nodes == nil {
+		return p.Mesh(), nil
+	}
+	mesh, err := p.MeshOn(nodes)
+	if err != nil {
+		return fem.Mesh{}, fmt.Errorf("the refined mesh does not fit the model: %w", err)
+	}
+	return mesh, nil
 }
 
 // Finish is the second stage: a copy of a, the first stage of r, with the
@@ -214,8 +230,10 @@ func Finish(ctx context.Context, r Request, a Analysis) (Analysis, error) {
 	return a, nil
 }
 
-// Run runs both stages.
+// Run runs both stages, the exact solution started beside the finite
+// element solve (Request.ExactAhead).
 func Run(ctx context.Context, r Request) (Analysis, error) {
+	r.ExactAhead = true
 	a, err := Solve(ctx, r)
 	if err != nil {
 		return a, err

@@ -144,12 +144,10 @@ func solveCases(a *Analysis, r Request) {
 		a.Err = err
 		return
 	}
-	mesh := p.Mesh()
-	if r.Nodes != nil {
-		if mesh, err = fem.MeshFromNodes(&a.Model, r.Nodes); err != nil {
-			a.Err = fmt.Errorf("the refined mesh does not fit the model: %w", err)
-			return
-		}
+	mesh, err := meshFor(p, r.Nodes)
+	if err != nil {
+		a.Err = err
+		return
 	}
 	c := &Cases{Show: r.Show, Combinations: a.Model.EnvelopeCombinations(), member: p, mesh: mesh, alone: &caseSolver{}}
 	a.Cases = c

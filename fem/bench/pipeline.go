@@ -153,7 +153,7 @@ func measurePipeline(cfg Config, bm benchModel, size int) (PipelineRow, error) {
 func measureKeyPoints(cfg Config, loads int) (KeyPointRow, error) {
 	m := KeyPointModel(cfg.KeyPointElements, loads)
 	progress(cfg, "beam model, %d elements, %d point loads: the analysis", cfg.KeyPointElements, loads)
-	r := analysis.Request{Model: *m, Checks: check.DefaultOptions()}
+	r := analysis.Request{Model: *m, Checks: check.DefaultOptions(), ExactAhead: true} // as analysis.Run
 	ctx := context.Background()
 	var failed error
 	var elements int

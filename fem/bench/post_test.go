@@ -30,7 +30,7 @@ func BenchmarkPostProcessing(b *testing.B) {
 	ctx := context.Background()
 	for _, bm := range benchModels {
 		for _, size := range []int{10_000, 100_000, 1_000_000} {
-			r := analysis.Request{Model: *bm.build(size)}
+			r := analysis.Request{Model: *bm.build(size), ExactAhead: true} // as analysis.Run
 			b.Run(fmt.Sprintf("%s/elements=%d", bm.name, size), func(b *testing.B) {
 				var solve, summary, finish time.Duration
 				for b.Loop() {
