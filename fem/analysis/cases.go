@@ -100,21 +100,25 @@ func (cs *caseSolver) exact(c *Cases) ([]*fem.Exact, error) {
 	return cs.exacts, cs.exactErr
 }
 
-// ShowNamed finds the case or combination named name (without regard to
-// case) in m: a combination first, then a case; "envelope" shows the
-// envelope. False when none is so named.
+// ShowNamed finds the case or combination named name in m: one whose name
+// is written exactly so first (a combination, then a case), then one whose
+// name differs only in letter case (a combination, then a case), since a
+// case "g" and a combination "G" may both be in the file; "envelope" shows
+// the envelope. False when none is so named.
 func ShowNamed(m *fem.Model, name string) (Show, bool) {
 	if strings.EqualFold(name, "envelope") {
 		return Show{Kind: ShowEnvelope}, true
 	}
-	for c, cb := range m.EnvelopeCombinations() {
-		if strings.EqualFold(cb.Name, name) {
-			return Show{Kind: ShowCombination, Index: c}, true
+	for _, same := range []func(a, b string) bool{func(a, b string) bool { return a == b }, strings.EqualFold} {
+		for c, cb := range m.EnvelopeCombinations() {
+			if same(cb.Name, name) {
+				return Show{Kind: ShowCombination, Index: c}, true
+			}
 		}
-	}
-	for k := range m.LoadSetCount() {
-		if strings.EqualFold(m.LoadSetName(k), name) {
-			return Show{Kind: ShowCase, Index: k}, true
+		for k := range m.LoadSetCount() {
+			if same(m.LoadSetName(k), name) {
+				return Show{Kind: ShowCase, Index: k}, true
+			}
 		}
 	}
 	return Show{}, false

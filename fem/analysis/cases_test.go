@@ -4,6 +4,7 @@ import (
 	"context"
 	"math"
 	"reflect"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
@@ -742,5 +743,35 @@ func TestUnsolvedFirstCombinationIsNamed(t *testing.T) {
 	}
 	if a.Err == nil || !strings.Contains(a.Err.Error(), strconv.Quote(m.Combinations[0].Name)) {
 		t.Errorf("error %v, want one naming combination %q", a.Err, m.Combinations[0].Name)
+	}
+}
+
+// --show NAME takes the case or combination whose name is written exactly
+// so before one that differs only in letter case: names are unique without
+// regard to case among the cases and among the combinations, but a case
+// "g" and a combination "G" may stand side by side, and `--show g` showed
+// the combination "G" (1 × imposed, say) in place of the case asked for.
+// Without an exact match the comparison still ignores case, combinations
+// first.
+func TestShowNamedPrefersTheExactName(t *testing.T) {
+	m := load(t, "two_span_cases.json")
+	// The case "imposed" and a combination "IMPOSED" of another case.
+	m.Combinations = append(m.Combinations, fem.Combination{Name: "IMPOSED", Kind: fem.OtherCombination,
+		Factors: []fem.CaseFactor{{Case: 0, Factor: 1}}})
+	imposed := slices.IndexFunc(m.Cases, func(c fem.LoadCase) bool { return c.Name == "imposed" })
+	for _, c := range []struct {
+		name string
+		want Show
+	}{
+		{"imposed", Show{Kind: ShowCase, Index: imposed}},
+		{"IMPOSED", Show{Kind: ShowCombination, Index: len(m.Combinations) - 1}},
+		{"Imposed", Show{Kind: ShowCombination, Index: len(m.Combinations) - 1}},
+		{"PATTERN", Show{Kind: ShowCombination, Index: 2}},
+		{"First Span", Show{Kind: ShowCase, Index: 1}},
+	} {
+		got, ok := ShowNamed(&m, c.name)
+		if !ok || got != c.want {
+			t.Errorf("ShowNamed(%q) = %+v, %v; want %+v (%s)", c.name, got, ok, c.want, c.want.Title(&m))
+		}
 	}
 }
