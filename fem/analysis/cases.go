@@ -186,22 +186,20 @@ func solveCases(a *Analysis, r Request) {
 	}
 }
 
-// solveSets is Σ factors[i]·sets[i] solved on p's structure on mesh.
+// solveSets is Σ factors[i]·sets[i] solved on p's structure on mesh: the
+// loads combined first and solved once, as the envelope solves a
+// combination (fem.CombinationSolutions.Solution), so that loads that
+// cancel leave nothing behind.
 func solveSets(p *fem.Member, mesh fem.Mesh, sets []fem.Loads, factors []float64) (*fem.Solution, error) {
 	st, err := p.Structure(mesh)
 	if err != nil {
 		return nil, err
 	}
-	sols := make([]*fem.Solution, len(sets))
-	for i := range sets {
-		if sols[i], err = st.Solve(&sets[i]); err != nil {
-			return nil, err
-		}
+	l, err := fem.CombineLoads(sets, factors)
+	if err != nil {
+		return nil, err
 	}
-	if len(sols) == 1 {
-		return sols[0], nil
-	}
-	return fem.CombineSolutions(sols, factors)
+	return st.Solve(&l)
 }
 
 // clone is a copy of c that Finish may fill in while the window shows c.
