@@ -177,6 +177,11 @@ type CombinationSolutions struct {
 	Loads                   *CombinationLoads
 	Fixed, Shares           []*Solution
 	FixedExact, SharesExact []*Exact
+	// structure and exactStructure solved them: a combination with every
+	// span loaded is solved on them from its combined loads (Solution,
+	// Exact).
+	structure      *Structure
+	exactStructure *ExactStructure
 	// tolerances are shareTolerances of Shares, worked out with them
 	// (SolveCombinations).
 	tolerances [][envelopeValues]float64
@@ -202,7 +207,7 @@ func (p *Member) SolveCombinations(mesh Mesh) (*CombinationSolutions, error) {
 	if err != nil {
 		return nil, err
 	}
-	cs := &CombinationSolutions{Loads: cl}
+	cs := &CombinationSolutions{Loads: cl, structure: st}
 	if cs.Fixed, err = solveAll(cl.Fixed, st.Solve, p.fixedName(cl)); err == nil {
 		cs.Shares, err = solveAll(cl.ShareLoads, st.Solve, p.shareName(cl))
 	}
@@ -222,6 +227,7 @@ func (cs *CombinationSolutions) SolveExact(p *Member) error {
 	if cs.FixedExact, err = solveAll(cs.Loads.Fixed, es.Solve, p.fixedName(cs.Loads)); err != nil {
 		return err
 	}
+	cs.exactStructure = es
 	cs.SharesExact, err = solveAll(cs.Loads.ShareLoads, es.Solve, p.shareName(cs.Loads))
 	return err
 }
@@ -271,27 +277,48 @@ func terms[S any](cs *CombinationSolutions, fixed, shares []S, c int) ([]S, []fl
 	return sols, factors
 }
 
-// Solution is combination c with every span of its cases loaded, as they
-// are given.
-func (cs *CombinationSolutions) Solution(c int) (*Solution, error) {
-	sols, factors := terms(cs, cs.Fixed, cs.Shares, c)
-	if len(sols) == 1 {
-		return sols[0], nil
+// EverySpan is combination c's loads with every span of its cases loaded,
+// as they are given, and whether it places a case by span at all (when it
+// does not, its loads are cs.Loads.Fixed[c]).
+func (cs *CombinationSolutions) EverySpan(c int) (Loads, bool, error) {
+	sets, factors := terms(cs, cs.Loads.Fixed, cs.Loads.ShareLoads, c)
+	if len(sets) == 1 {
+		return sets[0], false, nil
 	}
-	return CombineSolutions(sols, factors)
+	l, err := CombineLoads(sets, factors)
+	return l, true, err
 }
 
-// Exact is the exact solution of combination c with every span loaded; nil
-// before SolveExact.
+// Solution is combination c with every span of its cases loaded, as they
+// are given. Its loads are combined first and solved once, as those of a
+// combination without a case placed by span are, so that loads that
+// cancel leave no round-off of their parts' solutions behind (1 × a load
+// − 1 × the same placed by span carries nothing).
+func (cs *CombinationSolutions) Solution(c int) (*Solution, error) {
+	l, patterned, err := cs.EverySpan(c)
+	if err != nil {
+		return nil, err
+	}
+	if !patterned {
+		return cs.Fixed[c], nil
+	}
+	return cs.structure.Solve(&l)
+}
+
+// Exact is the exact solution of combination c with every span loaded,
+// solved as Solution is; nil before SolveExact.
 func (cs *CombinationSolutions) Exact(c int) (*Exact, error) {
 	if cs.FixedExact == nil {
 		return nil, nil
 	}
-	sols, factors := terms(cs, cs.FixedExact, cs.SharesExact, c)
-	if len(sols) == 1 {
-		return sols[0], nil
+	l, patterned, err := cs.EverySpan(c)
+	if err != nil {
+		return nil, err
 	}
-	return CombineExact(sols, factors)
+	if !patterned {
+		return cs.FixedExact[c], nil
+	}
+	return cs.exactStructure.Solve(&l)
 }
 
 // Governing is one extreme value of an envelope, where it is, and what

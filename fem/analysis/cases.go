@@ -100,21 +100,25 @@ func (cs *caseSolver) exact(c *Cases) ([]*fem.Exact, error) {
 	return cs.exacts, cs.exactErr
 }
 
-// ShowNamed finds the case or combination named name (without regard to
-// case) in m: a combination first, then a case; "envelope" shows the
-// envelope. False when none is so named.
+// ShowNamed finds the case or combination named name in m: one whose name
+// is written exactly so first (a combination, then a case), then one whose
+// name differs only in letter case (a combination, then a case), since a
+// case "g" and a combination "G" may both be in the file; "envelope" shows
+// the envelope. False when none is so named.
 func ShowNamed(m *fem.Model, name string) (Show, bool) {
 	if strings.EqualFold(name, "envelope") {
 		return Show{Kind: ShowEnvelope}, true
 	}
-	for c, cb := range m.EnvelopeCombinations() {
-		if strings.EqualFold(cb.Name, name) {
-			return Show{Kind: ShowCombination, Index: c}, true
+	for _, same := range []func(a, b string) bool{func(a, b string) bool { return a == b }, strings.EqualFold} {
+		for c, cb := range m.EnvelopeCombinations() {
+			if same(cb.Name, name) {
+				return Show{Kind: ShowCombination, Index: c}, true
+			}
 		}
-	}
-	for k := range m.LoadSetCount() {
-		if strings.EqualFold(m.LoadSetName(k), name) {
-			return Show{Kind: ShowCase, Index: k}, true
+		for k := range m.LoadSetCount() {
+			if same(m.LoadSetName(k), name) {
+				return Show{Kind: ShowCase, Index: k}, true
+			}
 		}
 	}
 	return Show{}, false
@@ -180,22 +184,20 @@ func solveCases(a *Analysis, r Request) {
 	}
 }
 
-// solveSets is Σ factors[i]·sets[i] solved on p's structure on mesh.
+// solveSets is Σ factors[i]·sets[i] solved on p's structure on mesh: the
+// loads combined first and solved once, as the envelope solves a
+// combination (fem.CombinationSolutions.Solution), so that loads that
+// cancel leave nothing behind.
 func solveSets(p *fem.Member, mesh fem.Mesh, sets []fem.Loads, factors []float64) (*fem.Solution, error) {
 	st, err := p.Structure(mesh)
 	if err != nil {
 		return nil, err
 	}
-	sols := make([]*fem.Solution, len(sets))
-	for i := range sets {
-		if sols[i], err = st.Solve(&sets[i]); err != nil {
-			return nil, err
-		}
+	l, err := fem.CombineLoads(sets, factors)
+	if err != nil {
+		return nil, err
 	}
-	if len(sols) == 1 {
-		return sols[0], nil
-	}
-	return fem.CombineSolutions(sols, factors)
+	return st.Solve(&l)
 }
 
 // clone is a copy of c that Finish may fill in while the window shows c.
