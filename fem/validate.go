@@ -1015,8 +1015,9 @@ func quoteDigits(u units.System, k units.Kind, x float64, digits int) string {
 // quotePair is quote for two SI values of kind k, with the fewest digits
 // that tell them apart in u (fmtPair).
 func quotePair(u units.System, k units.Kind, a, b float64) (string, string) {
-	digits := digitsApart([]float64{u.ToDisplay(k, a), u.ToDisplay(k, b)})
-	return quoteDigits(u, k, a, digits), quoteDigits(u, k, b, digits)
+	da, db := fmtPair(u.ToDisplay(k, a), u.ToDisplay(k, b))
+	unit := " " + u.Unit(k).Symbol
+	return da + unit, db + unit
 }
 
 // fmtPowerOfTen prints 10^e, for e = log10 of a value that may lie outside
