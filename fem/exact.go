@@ -650,7 +650,21 @@ type exactLayout struct {
 	heldCol  []int       // the column of each one's reaction
 	firstCol []int       // per stretch, the column of its first constant
 	unknowns int
+	// actionUnit is 1, or for stiffnesses beyond 2^±actionUnitBits a power
+	// of two near the stretches' stiffness (their geometric mean): the
+	// balance equations are divided by it and the reactions solved for in
+	// it, so that they meet the continuity and restraint equations, in m
+	// and rad, near unit size whatever EI or EA is.
+	actionUnit float64
 }
+
+// actionUnitBits bounds the stiffnesses (N, N·m²) whose balance equations
+// are left as they are: within 2^±64 the row and column equilibration
+// balances them alone (two spans of steel with E scaled from 1e-25 to 1e18
+// are solved in TestExactSolutionWhateverTheStiffness), and a member of
+// ordinary size keeps the round-off it had; beyond, it did not (E scaled
+// by 1e30 gave no exact solution, condition number 2.67e+13 after scaling).
+const actionUnitBits = 64
 
 func (e *Exact) layout(p odeProblem, points []keyPoint) exactLayout {
 	l := exactLayout{firstCol: make([]int, len(e.stretches))}
@@ -669,6 +683,15 @@ func (e *Exact) layout(p odeProblem, points []keyPoint) exactLayout {
 		}
 	}
 	l.unknowns = col
+	exponents := 0
+	for j := range e.stretches {
+		_, x := math.Frexp(e.solution(p, j).stiffness)
+		exponents += x
+	}
+	l.actionUnit = 1
+	if x := exponents / max(1, len(e.stretches)); x > actionUnitBits || x < -actionUnitBits {
+		l.actionUnit = math.Ldexp(1, x)
+	}
 	return l
 }
 
@@ -720,8 +743,10 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 			sys.rhs(row, -scale*rot)
 		}
 	}
-	// action adds scale·T_i of stretch j at t to the row.
+	// action adds scale·T_i of stretch j at t, in the action unit, to the
+	// row.
 	action := func(j, i int, t, scale float64) {
+		scale /= l.actionUnit
 		s := e.solution(p, j)
 		term(j, p.order-1-i, t, scale*p.signs[i]*s.stiffness)
 		if i == p.offsetAction {
@@ -749,7 +774,7 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 				if kp.release == 0 {
 					action(k-1, i, 1, 1)
 				} else {
-					action(k-1, i, 1, kp.release)
+					action(k-1, i, 1, kp.release*l.actionUnit)
 					motion(k, i, 0, -1)
 					motion(k-1, i, 1, 1)
 				}
@@ -765,7 +790,7 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 			if k > 0 {
 				action(k-1, i, 1, -1)
 			}
-			sys.rhs(row, -kp.load[d])
+			sys.rhs(row, -kp.load[d]/l.actionUnit)
 			first := next
 			for _, r := range kp.restraints {
 				if r.dof == d {
@@ -782,7 +807,7 @@ func (e *Exact) equations(p odeProblem, points []keyPoint, l exactLayout, sys ex
 					continue
 				}
 				motion(side, i, t, 1)
-				cell[0] = r.compliance
+				cell[0] = r.compliance * l.actionUnit
 				sys.add(row, l.heldCol[q], cell[:])
 				sys.rhs(row, r.settlement)
 				row++
@@ -800,7 +825,7 @@ func (e *Exact) store(p odeProblem, l exactLayout, x []float64) {
 	}
 	for q, r := range l.held {
 		if r.support != datum {
-			e.reactions[r.support].Force[r.dof] = x[l.heldCol[q]]
+			e.reactions[r.support].Force[r.dof] = x[l.heldCol[q]] * l.actionUnit
 		}
 	}
 }
