@@ -94,6 +94,11 @@ func exactCheck(p *Probe, o Options) Result {
 	}
 	norms := p.norms
 	r.Value, r.X = norms.MaxStressRelative, p.stressErrorAt
+	if math.IsNaN(r.Value) || math.IsNaN(norms.RelativeEnergy) {
+		r.Status = Warn
+		r.Message = "The finite element error could not be measured: comparing the two solutions overflowed the range of floating-point numbers, so nothing here says how far the finite element values can be trusted. Look for material or section values, loads or springs of extreme size."
+		return r
+	}
 	r.Status = Pass
 	if r.Value > r.Limit {
 		r.Status = Warn

@@ -1,6 +1,8 @@
 package check
 
 import (
+	"math"
+	"strings"
 	"testing"
 
 	"stave/fem"
@@ -53,5 +55,25 @@ func TestEquilibriumOfFreeThermalCurvature(t *testing.T) {
 	}
 	if f, mo := m.ImposedScales(); f != 0 || mo <= 0 {
 		t.Errorf("imposed scales %g N, %g N·m; want none along and EI·α·ΔT/h across", f, mo)
+	}
+}
+
+// An error against the exact solution that could not be measured (NaN: the
+// comparison overflowed, as on a member whose thermal expansion of about
+// 9e302 /K reached the error norms) is never a pass: the check says it
+// could not judge the mesh, and is flagged.
+func TestExactErrorNotANumberIsNoPass(t *testing.T) {
+	m := beam(4, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}}, 0)
+	m.PointLoads = []fem.PointLoad{{X: 2, Transverse: -10e3}}
+	s, e := solveBoth(t, &m)
+	p := &Probe{model: &m, solution: s, exact: e}
+	p.norms.MaxStressRelative, p.norms.RelativeEnergy = math.NaN(), math.NaN()
+	r := exactCheck(p, DefaultOptions())
+	if r.Status == Pass || !strings.Contains(r.Message, "could not be measured") {
+		t.Errorf("an error of NaN: %v, %q; want it flagged as not measured", r.Status, r.Message)
+	}
+	p.norms.MaxStressRelative, p.norms.RelativeEnergy = 0.001, 0.001
+	if r := exactCheck(p, DefaultOptions()); r.Status != Pass {
+		t.Errorf("an error of 0.1 %%: %v, want a pass", r.Status)
 	}
 }
