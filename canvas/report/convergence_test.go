@@ -68,14 +68,8 @@ func TestConvergenceTheoryOfShearDeformation(t *testing.T) {
 // while the difference's is q²L⁵/(1440EI): a ratio of 1/6 (integrated by
 // hand), printed as its square root, 40.8 %, not as 16.7 %.
 func TestEnergyErrorIsNamedAsTheSquareRoot(t *testing.T) {
-	m := fem.Model{
-		Segments: []fem.Segment{{Start: 0, End: 4,
-			Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
-			Material: fem.Material{Elastic: 2e11}}},
-		Supports:        []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}},
-		DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 4, Intensity: -10e3}}}},
-		Mesh:            fem.MeshSettings{Elements: 1},
-	}
+	m := simpleSpanUniform()
+	m.Mesh = fem.MeshSettings{Elements: 1}
 	s, err := fem.Solve(&m)
 	if err != nil {
 		t.Fatal(err)
@@ -105,14 +99,8 @@ func TestEnergyErrorIsNamedAsTheSquareRoot(t *testing.T) {
 // Strang & Fix, ch. 1, from memory). The text said "as with point loads
 // only", which this model has none of: it must name the case it is.
 func TestConvergenceExactSaysWhichLoadsTheElementsReproduce(t *testing.T) {
-	m := fem.Model{
-		Segments: []fem.Segment{{Start: 0, End: 4,
-			Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
-			Material: fem.Material{Elastic: 2e11}}},
-		Supports:        []fem.Support{{X: 0, Kind: fem.Fixed}},
-		DistributedLoad: []fem.DistributedLoad{{Direction: fem.Axial, Points: []fem.LoadPoint{{X: 0, Intensity: 10e3}, {X: 4, Intensity: 10e3}}}},
-		Mesh:            fem.MeshSettings{BarOrder: fem.QuadraticBar},
-	}
+	m := barUnderUniformAxialLoad()
+	m.Mesh = fem.MeshSettings{BarOrder: fem.QuadraticBar}
 	table, err := study.Convergence(context.Background(), &m, 8, units.Base)
 	if err != nil {
 		t.Fatal(err)
@@ -132,14 +120,8 @@ func TestConvergenceExactSaysWhichLoadsTheElementsReproduce(t *testing.T) {
 // `fitted_from_row` are null where there is none), nor does one whose
 // errors are all round-off: the document said the fit started from row 0.
 func TestConvergenceJSONFitsNoRowWithoutAFit(t *testing.T) {
-	beam := fem.Model{
-		Segments: []fem.Segment{{Start: 0, End: 4,
-			Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
-			Material: fem.Material{Elastic: 2e11}}},
-		Supports: []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}},
-	}
-	uniform, point := beam, beam
-	uniform.DistributedLoad = []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 4, Intensity: -10e3}}}}
+	uniform, point := simpleSpanUniform(), simpleSpanUniform()
+	point.DistributedLoad = nil
 	point.PointLoads = []fem.PointLoad{{X: 1.3, Transverse: -10e3}}
 	for _, c := range []struct {
 		name string
@@ -181,11 +163,7 @@ func TestConvergenceJSONFitsNoRowWithoutAFit(t *testing.T) {
 // the nodes under a uniform load q, by hand from the nodally exact
 // rotations). A study of one mesh has no rate, and says why.
 func TestConvergenceTextGivesTheStressRate(t *testing.T) {
-	base := fem.Model{
-		Segments: []fem.Segment{{Start: 0, End: 4,
-			Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
-			Material: fem.Material{Elastic: 2e11}}},
-	}
+	base := fem.Model{Segments: fourMetreMember()}
 	bar, beam := base, base
 	bar.Supports = []fem.Support{{X: 0, Kind: fem.Fixed}}
 	bar.DistributedLoad = []fem.DistributedLoad{{Direction: fem.Axial, Points: []fem.LoadPoint{{X: 0, Intensity: 10e3}, {X: 4, Intensity: 10e3}}}}
@@ -226,13 +204,7 @@ func TestConvergenceTextGivesTheStressRate(t *testing.T) {
 // falls as h (Strang & Fix, ch. 1, from memory), so a target of 1e-6 on a
 // bar under a uniform axial load needs far more than 64 elements.
 func TestAdaptiveTextNamesTheElementLimit(t *testing.T) {
-	m := fem.Model{
-		Segments: []fem.Segment{{Start: 0, End: 4,
-			Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
-			Material: fem.Material{Elastic: 2e11}}},
-		Supports:        []fem.Support{{X: 0, Kind: fem.Fixed}},
-		DistributedLoad: []fem.DistributedLoad{{Direction: fem.Axial, Points: []fem.LoadPoint{{X: 0, Intensity: 10e3}, {X: 4, Intensity: 10e3}}}},
-	}
+	m := barUnderUniformAxialLoad()
 	v, err := study.AgainstUniform(context.Background(), &m, 1e-6, 64, 1000, units.Base)
 	if err != nil {
 		t.Fatal(err)
@@ -255,13 +227,7 @@ func TestAdaptiveTextNamesTheElementLimit(t *testing.T) {
 // q·s²(h − s)²/(24EI)), so below 1e-10 from about 256 elements on, while
 // the stress and energy errors (h²) stay above it.
 func TestConvergenceTextSaysWhatADashMeans(t *testing.T) {
-	m := fem.Model{
-		Segments: []fem.Segment{{Start: 0, End: 4,
-			Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
-			Material: fem.Material{Elastic: 2e11}}},
-		Supports:        []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}},
-		DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 4, Intensity: -10e3}}}},
-	}
+	m := simpleSpanUniform()
 	table, err := study.Convergence(context.Background(), &m, 512, units.Base)
 	if err != nil {
 		t.Fatal(err)
@@ -274,4 +240,27 @@ func TestConvergenceTextSaysWhatADashMeans(t *testing.T) {
 	if !strings.Contains(buf.String(), "- in the first row and where either error is at round-off") {
 		t.Errorf("the legend does not say what a dash in a rate column means:\n%s", buf.String())
 	}
+}
+
+// fourMetreMember is the member of the studies' tests (demo data): 4 m of
+// one section, E = 200 GPa.
+func fourMetreMember() []fem.Segment {
+	return []fem.Segment{{Start: 0, End: 4,
+		Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
+		Material: fem.Material{Elastic: 2e11}}}
+}
+
+// simpleSpanUniform is that member simply supported under 10 kN/m down.
+func simpleSpanUniform() fem.Model {
+	return fem.Model{Segments: fourMetreMember(),
+		Supports:        []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}},
+		DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 4, Intensity: -10e3}}}}}
+}
+
+// barUnderUniformAxialLoad is that member fixed at x = 0 under 10 kN/m
+// along it.
+func barUnderUniformAxialLoad() fem.Model {
+	return fem.Model{Segments: fourMetreMember(),
+		Supports:        []fem.Support{{X: 0, Kind: fem.Fixed}},
+		DistributedLoad: []fem.DistributedLoad{{Direction: fem.Axial, Points: []fem.LoadPoint{{X: 0, Intensity: 10e3}, {X: 4, Intensity: 10e3}}}}}
 }

@@ -438,7 +438,15 @@ func TestDepthAgainstTheFibreDistance(t *testing.T) {
 // materialFindings are the findings of code material of m, analysed in full.
 func materialFindings(t *testing.T, m fem.Model) []Finding {
 	t.Helper()
-	a, err := Run(context.Background(), Request{Model: m, Checks: check.DefaultOptions()})
+	return materialFindingsIn(t, m, check.DefaultOptions().Units)
+}
+
+// materialFindingsIn is materialFindings with the messages in units u.
+func materialFindingsIn(t *testing.T, m fem.Model, u units.System) []Finding {
+	t.Helper()
+	opts := check.DefaultOptions()
+	opts.Units = u
+	a, err := Run(context.Background(), Request{Model: m, Checks: opts})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -36,19 +36,7 @@ func TestSectionFindingsInDisplayUnits(t *testing.T) {
 			"Segment 1's depth h = 406.4 mm is more than twice its extreme fibre distance c = 152.4 mm, so its other face lies 254.0 mm from the neutral axis",
 		}},
 	} {
-		opts := check.DefaultOptions()
-		opts.Units = c.u
-		a, err := Run(context.Background(), Request{Model: m, Checks: opts})
-		if err != nil {
-			t.Fatal(err)
-		}
-		var said []string
-		for _, f := range a.Findings() {
-			if f.Code == CodeMaterial {
-				said = append(said, f.Message)
-			}
-		}
-		all := strings.Join(said, "\n")
+		all := messagesOf(materialFindingsIn(t, m, c.u), "")
 		for _, w := range c.want {
 			if !strings.Contains(all, w) {
 				t.Errorf("in %s the cautions lack %q:\n%s", c.u.Name, w, all)
@@ -75,19 +63,7 @@ func TestMaterialFindingInDisplayUnits(t *testing.T) {
 		{units.USCustomary, "steel: E = 2.900e+07 ksi is 1000 times that of typical steel (29000 ksi). Did you type a value in psi where ksi is expected?"},
 		{units.SI, "steel: E = 199900 GPa is 1000 times that of typical steel (199.9 GPa). Did you type a value in MPa where GPa is expected?"},
 	} {
-		opts := check.DefaultOptions()
-		opts.Units = c.u
-		a, err := Run(context.Background(), Request{Model: m, Checks: opts})
-		if err != nil {
-			t.Fatal(err)
-		}
-		var said []string
-		for _, f := range a.Findings() {
-			if f.Code == CodeMaterial && f.Name == "material of segment 1" {
-				said = append(said, f.Message)
-			}
-		}
-		if all := strings.Join(said, "\n"); !strings.Contains(all, c.want) {
+		if all := messagesOf(materialFindingsIn(t, m, c.u), "material of segment 1"); !strings.Contains(all, c.want) {
 			t.Errorf("in %s the material caution is not %q:\n%s", c.u.Name, c.want, all)
 		}
 	}
@@ -118,4 +94,16 @@ func TestRefusedModelExactErrorInDisplayUnits(t *testing.T) {
 	if a.ExactErr.Error() != a.Err.Error() {
 		t.Errorf("the exact solution's refusal\n%q\ndiffers from the finite element one's\n%q", a.ExactErr, a.Err)
 	}
+}
+
+// messagesOf are the messages of fs, those named name only unless it is "",
+// one to a line.
+func messagesOf(fs []Finding, name string) string {
+	var said []string
+	for _, f := range fs {
+		if name == "" || f.Name == name {
+			said = append(said, f.Message)
+		}
+	}
+	return strings.Join(said, "\n")
 }
