@@ -34,6 +34,10 @@ type Exact struct {
 	// summary, the comparison, the checks and the drawing all read them.
 	rangesOnce sync.Once
 	ranges     [][quantityCount][2]extremum
+	// extremes are the exact solution's own extremes (ownExtremes),
+	// worked out once (extremesOnce).
+	extremesOnce sync.Once
+	extremes     *extremes
 }
 
 // exactStretch is the part of the member between two neighbouring key points.
@@ -333,6 +337,12 @@ func newExactStructure(p *Member) (*ExactStructure, *Exact, error) {
 	var err error
 	if errors.Join(errs...) == nil {
 		e, err = own.finish(points)
+		if err == nil {
+			// The stretches' ranges and the extremes, which every summary
+			// asks for, worked out while the condition estimates finish on
+			// their own goroutines.
+			e.ownExtremes()
+		}
 	}
 	estimated.Wait()
 	// The problems' errors in order, as if one after the other.

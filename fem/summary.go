@@ -270,6 +270,13 @@ func (x *extremes) list() []Extreme {
 	return out
 }
 
+// ownExtremes are exactExtremes of e, worked out once and kept
+// (Exact.extremes): summaries only read them.
+func (e *Exact) ownExtremes() *extremes {
+	e.extremesOnce.Do(func() { e.extremes = exactExtremes(e) })
+	return e.extremes
+}
+
 // exactExtremes are the extremes of e, stretch by stretch in closed form
 // (Exact.EachInterval, whose ranges the comparison, the checks and the
 // drawing read too). A second pass takes values within extremeTie of
@@ -597,7 +604,7 @@ func (z *Summarizer) Summary() Summary {
 	sum.Extremes = z.extremes.list()
 	L := s.Model.Length()
 	if ex != nil {
-		withExact(sum.Extremes, exactExtremes(ex), L, forceFloor(s))
+		withExact(sum.Extremes, ex.ownExtremes(), L, forceFloor(s))
 	}
 	sum.Supports = supportActions(s, ex)
 	if s.AxialOnly {
