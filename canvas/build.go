@@ -124,10 +124,7 @@ func build(in Input, v View) *builder {
 	// finds each strip's largest gap; one walk reads both when it can
 	// (Cache.read).
 	if in.Solution != nil {
-		qs := []fem.Quantity{fem.QDeflection}
-		for _, st := range lay.strips {
-			qs = append(qs, st.diagram.quantity)
-		}
+		qs := append([]fem.Quantity{fem.QDeflection}, stripQuantities(lay)...)
 		var e *fem.Exact
 		if len(lay.strips) > 0 {
 			e = b.exact()
@@ -136,11 +133,13 @@ func build(in Input, v View) *builder {
 		cs, b.gaps = in.Cache.read(in.Solution, v, qs, e, qs[1:])
 		b.deflection, b.feCurves = cs[0], cs[1:]
 	}
+	exact := b.startExactCurves(lay)
+	defer exact.wait() // should the sketch fail before diagrams waits
 	b.sketch(lay)
 	if lay.nodal != nil {
 		b.nodalStrip(*lay.nodal)
 	}
-	b.diagrams(lay)
+	b.diagrams(lay, exact)
 	if in.Hovering {
 		b.hoverLine(b.sx(in.HoverX), lay.top, v.Height)
 	}

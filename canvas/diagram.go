@@ -63,17 +63,14 @@ func capitalized(s string) string {
 // diagrams draws every switched-on strip. All strips are sampled in one walk
 // over the elements (Build), which also takes each one's extremes and its
 // largest gap to the exact solution in closed form.
-func (b *builder) diagrams(lay layoutBands) {
+func (b *builder) diagrams(lay layoutBands, exact *exactRead) {
+	ex := exact.curves() // waited for even when no strip draws them
 	if len(lay.strips) == 0 {
 		return
 	}
-	qs := make([]fem.Quantity, len(lay.strips))
-	for i, st := range lay.strips {
-		qs[i] = st.diagram.quantity
-	}
+	qs := stripQuantities(lay)
 	// The exact extremes go beside the finite element ones whenever the
 	// exact solution is known; its curve and the gap only when shown.
-	var ex []*curve
 	var exLo, exHi []extreme
 	var envs []envelopeStrip
 	switch {
@@ -82,9 +79,6 @@ func (b *builder) diagrams(lay layoutBands) {
 		envs = b.envelopeCurves(qs)
 	case b.in.Exact != nil && b.feCurves != nil:
 		exLo, exHi = exactExtremes(b.in.Exact, b.v, qs, b.feCurves)
-	}
-	if e := b.exact(); e != nil && envs == nil {
-		ex = exactCurves(e, b.in.Model, b.v, qs, b.in.Cache)
 	}
 	for i, st := range lay.strips {
 		sd := stripData{place: st}
@@ -108,6 +102,66 @@ func (b *builder) diagrams(lay layoutBands) {
 		}
 		b.strip(sd)
 	}
+}
+
+// stripQuantities are the quantities of the strips, in layout order.
+func stripQuantities(lay layoutBands) []fem.Quantity {
+	qs := make([]fem.Quantity, len(lay.strips))
+	for i, st := range lay.strips {
+		qs[i] = st.diagram.quantity
+	}
+	return qs
+}
+
+// exactRead is the exact curves of the strips being read on a goroutine of
+// their own (startExactCurves).
+type exactRead struct {
+	done   chan struct{}
+	read   []*curve
+	failed any // what the reading panicked with, raised again by curves
+}
+
+// startExactCurves starts reading the exact curves of the strips when the
+// drawing shows them (not under an envelope, whose own curves take their
+// place). They need only the exact solution, the model and the view, so
+// they are read beside the sketch, which does not touch them; diagrams
+// waits for them. It returns nil when there is nothing to read.
+func (b *builder) startExactCurves(lay layoutBands) *exactRead {
+	e := b.exact()
+	if e == nil || b.in.Envelope != nil || len(lay.strips) == 0 {
+		return nil
+	}
+	r := &exactRead{done: make(chan struct{})}
+	m, v, qs, c := b.in.Model, b.v, stripQuantities(lay), b.in.Cache
+	go func() {
+		defer func() {
+			r.failed = recover()
+			close(r.done)
+		}()
+		r.read = exactCurves(e, m, v, qs, c)
+	}()
+	return r
+}
+
+// wait waits for the reading to end (nothing to wait for on a nil r): the
+// curves' memory in the cache is the reading's until then.
+func (r *exactRead) wait() {
+	if r != nil {
+		<-r.done
+	}
+}
+
+// curves waits for the exact curves and returns them; nil on a nil r. A
+// panic of the reading is raised again here, in the builder's goroutine.
+func (r *exactRead) curves() []*curve {
+	if r == nil {
+		return nil
+	}
+	r.wait()
+	if r.failed != nil {
+		panic(r.failed)
+	}
+	return r.read
 }
 
 // stripData is what one strip draws: the finite element curve, the exact
