@@ -185,9 +185,25 @@ func thermalFindings(m *fem.Model, u units.System) []Finding {
 			continue
 		}
 		out = append(out, segmentFinding(s, fmt.Sprintf("thermal expansion of segment %d", i+1),
-			fmt.Sprintf("Segment %d has no coefficient of thermal expansion α, so %s does nothing to it: enter α (typical values: steel 12e-6 /K, concrete 10e-6 /K, aluminium 23.6e-6 /K), or remove the temperature load.", i+1, strings.Join(loads, " and "))))
+			fmt.Sprintf("Segment %d has no coefficient of thermal expansion α, so %s does nothing to it: enter α (typical values: %s), or remove the temperature load.", i+1, strings.Join(loads, " and "), typicalExpansion(u))))
 	}
 	return out
+}
+
+// typicalExpansion lists in u the coefficients of thermal expansion of
+// typical steel, concrete and aluminium, those the material cautions
+// compare with (material.TypicalIn): "steel 1.200e-05 1/K, ...".
+func typicalExpansion(u units.System) string {
+	var said []string
+	for _, kind := range []string{"steel", "concrete", "aluminium"} {
+		for _, e := range material.TypicalIn(u) {
+			if e.Kind == kind {
+				said = append(said, kind+" "+u.Format(units.ThermalExpansion, e.Material.ThermalExpansion))
+				break
+			}
+		}
+	}
+	return strings.Join(said, ", ")
 }
 
 // selfWeightFindings is the caution that m gives gravity for self-weight
