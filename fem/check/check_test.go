@@ -558,6 +558,9 @@ func TestUtilisationTextKeepsTheSideOfOne(t *testing.T) {
 		{999999.994, "999999.99"},
 		{1e6, "1e+06"},
 		{1e300, "1e+300"},
+		// A limit that underflows (an allowable of 1e-5 Pa over a safety
+		// factor of 1e300) overflows the utilisation, which read "+Inf".
+		{math.Inf(1), "infinite"},
 	} {
 		if got := UtilisationText(c.u); got != c.want {
 			t.Errorf("UtilisationText(%v) = %q, want %q", c.u, got, c.want)
@@ -890,6 +893,32 @@ func TestStressOfEachSegmentAgainstItsOwnSection(t *testing.T) {
 			if want == 0 && r.Value != 0 || want != 0 && !near(r.Value, want, 0.01) {
 				t.Errorf("%s: segment %d stress %g Pa at x = %g, want %g (σ = M·c/I)", c.name, i+1, r.Value, r.X, want)
 			}
+		}
+	}
+}
+
+// Values a check computes that overflow read in words, not as fmt writes
+// them ("+Inf", Go's fmt documentation, from memory): the beam of
+// TestHandComputedUtilisation (σ = 30 MPa) checked against an allowable of
+// 1e-5 Pa over a safety factor of 1e300 has a utilisation beyond the
+// floating-point range, "Utilisation +Inf"; a safety factor of 5e-324, the
+// least above zero, is read as a resistance factor whose inverse
+// overflows, "enter 1/φ = +Inf".
+func TestCheckMessagesSayOverflowInWords(t *testing.T) {
+	m := beam(4, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}}, 1e-5)
+	m.PointLoads = []fem.PointLoad{{X: 2, Transverse: -20e3}}
+	s, e := solveBoth(t, &m)
+	for _, c := range []struct {
+		allowable, factor float64
+		want              string
+	}{
+		{1e-5, 1e300, "Utilisation infinite"},
+		{30e6, 5e-324, "enter 1/φ = infinite"},
+	} {
+		m.Segments[0].Material.Allowable = c.allowable
+		r := find(t, Run(&m, s, e, Options{SafetyFactor: c.factor}), "Stress, segment 1")
+		if strings.Contains(r.Message, "Inf") || !strings.Contains(r.Message, c.want) {
+			t.Errorf("allowable %g Pa, safety factor %g: %q, want %q and no Inf", c.allowable, c.factor, r.Message, c.want)
 		}
 	}
 }
