@@ -404,7 +404,8 @@ func (f floorSizes) stressNear(m *Model, xs ...float64) floorSizes {
 // the force on its area or the moment on its section modulus (and of the
 // whole model the largest of these); the
 // displacement, what that force stretches or bends the most flexible
-// segment over the member's length (F·L/EA, F·L³/EI). The forces along the
+// segment over the member's length (F·L/EA, F·L³/EI), or over the shorter
+// length a stiff foundation spreads it over (groundLengths). The forces along the
 // member only stretch it and those across it and the moments only bend it
 // (linear theory), so each sets only its own share of the stress and the
 // displacement: a large axial force does not make a real deflection beside
@@ -436,11 +437,36 @@ func forceFloor(s *Solution) floorSizes {
 			f.all[1] = max(f.all[1], f.segments[i][0])
 		}
 		if e := sg.Material.Elastic; e > 0 && sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
-			f.axial[2] = max(f.axial[2], axial*L/(e*sg.Section.Area))
-			f.all[2] = max(f.all[2], f.axial[2], across*L*L*L/(e*sg.Section.SecondMoment))
+			ea, ei := e*sg.Section.Area, e*sg.Section.SecondMoment
+			la, lb := groundLengths(m, ea, ei)
+			f.axial[2] = max(f.axial[2], axial*la/ea)
+			f.all[2] = max(f.all[2], f.axial[2], across*lb*lb*lb/ei)
 		}
 	}
 	return f
+}
+
+// groundLengths are the lengths over which the forces along and across a
+// member of m stretch and bend a segment of rigidities ea and ei: the
+// member's length, or on an elastic foundation that holds the member the
+// length over which the stiffest foundation spreads a force, if shorter:
+// 1/α = √(EA/kₐ) along (the bar on an elastic bed, from memory) and
+// 1/β = (4EI/k)^¼ across (Hetényi, Beams on Elastic Foundation: a force P
+// deflects a long beam P·β/(2k) = P/(8EI·β³), from memory). A stiff bed
+// holds the deflection far under P·L³/EI, which would make a real
+// deflection and its error round-off.
+func groundLengths(m *Model, ea, ei float64) (along, across float64) {
+	L := m.Length()
+	along, across = L, L
+	for _, g := range m.Foundations {
+		if g.AxialModulus > 0 {
+			along = min(along, math.Sqrt(ea/g.AxialModulus))
+		}
+		if g.Modulus > 0 {
+			across = min(across, math.Sqrt(math.Sqrt(4*ei/g.Modulus)))
+		}
+	}
+	return along, across
 }
 
 // LoadScales are the force (N), the stress of each segment (Pa, in the
