@@ -280,3 +280,31 @@ func TestDisplacementErrorOnAStiffFoundation(t *testing.T) {
 		}
 	}
 }
+
+// Along the member alike: a 10 m bar (EA = 8e8 N) on an axial bed of
+// kₐ = 1e20 N/m² pulled by P = 100 kN at its free end x = 0 stretches
+// u(0) = P/(EA·α), α = √(kₐ/EA), and the bed holds the rest (the
+// semi-infinite bar on an elastic bed, EA·u″ = kₐ·u, from memory). Against
+// P·L/EA, 1e10 times more, its displacement and their error read 0.
+func TestAxialDisplacementOnAStiffBed(t *testing.T) {
+	const L, EA, P, ka = 10.0, 8e8, 100e3, 1e20
+	m := &Model{
+		Segments:    []Segment{{Start: 0, End: L, Section: Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1}, Material: Material{Elastic: EA / 0.004}}},
+		Foundations: []Foundation{{Start: 0, End: L, AxialModulus: ka}},
+		PointLoads:  []PointLoad{{X: 0, Axial: -P}},
+		AxialOnly:   true,
+		Mesh:        MeshSettings{Elements: 4},
+	}
+	s, e := solveBoth(t, m)
+	want := -P / (EA * math.Sqrt(ka/EA))
+	if u := e.At(0, Right).AxialDisplacement; !relNear(u, want, 1e-6) {
+		t.Fatalf("exact u(0) = %g m, want %g m", u, want)
+	}
+	sum := Summarize(s, e)
+	if u := sum.Extremes[QAxialDisplacement]; !relNear(u.Min, want, 1e-6) {
+		t.Errorf("smallest axial displacement %g m, want %g m", u.Min, want)
+	}
+	if sum.ExactError.RelativeL2 == 0 {
+		t.Errorf("displacement error 0 on 4 elements over a decay length of %g m", 1/math.Sqrt(ka/EA))
+	}
+}
