@@ -408,7 +408,7 @@ func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 			continue
 		}
 		sh.row([]string{quantityWords(e.Quantity), f(q, e.Max), f(units.Position, e.XMax), f(q, e.FEMax),
-			f(q, e.Min), f(units.Position, e.XMin), f(q, e.FEMin), fmt.Sprintf("%.3g %%", 100*e.Accuracy)},
+			f(q, e.Min), f(units.Position, e.XMin), f(q, e.FEMin), units.FormatG("%.3g %%", 100*e.Accuracy)},
 			xs, sheetSmall, inkColour, false)
 	}
 	if len(sum.Supports) > 0 {
@@ -430,12 +430,13 @@ func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 	if len(sum.Foundations) > 0 {
 		reactions += " of the supports and the ground"
 	}
-	sh.para(fmt.Sprintf("Equilibrium residual (%s): %s, %s, %s (relative %.1e; FE %.1e)", reactions, f(units.Force, eq.Residual.Axial),
-		f(units.Force, eq.Residual.Transverse), f(units.Moment, eq.Residual.Moment), eq.Relative, sum.FEEquilibrium.Relative), inkColour)
-	sh.para(fmt.Sprintf("Mesh: %s, %s, %s, condition estimate %.2e. %s",
-		units.Count(sum.Mesh.Elements, "element"), units.Count(sum.Mesh.Nodes, "node"), sum.Mesh.Kinds, sum.Mesh.Condition, mesh), inkColour)
+	sh.para(fmt.Sprintf("Equilibrium residual (%s): %s, %s, %s (relative %s; FE %s)", reactions, f(units.Force, eq.Residual.Axial),
+		f(units.Force, eq.Residual.Transverse), f(units.Moment, eq.Residual.Moment), units.FormatG("%.1e", eq.Relative), units.FormatG("%.1e", sum.FEEquilibrium.Relative)), inkColour)
+	sh.para(fmt.Sprintf("Mesh: %s, %s, %s, condition estimate %s. %s",
+		units.Count(sum.Mesh.Elements, "element"), units.Count(sum.Mesh.Nodes, "node"), sum.Mesh.Kinds, units.FormatG("%.2e", sum.Mesh.Condition), mesh), inkColour)
 	if e := sum.ExactError; e != nil {
-		sh.para(fmt.Sprintf("FE against exact: %s %.3g %% of the largest stress, %s %.3g %%, %s %.3g %%",
-			fem.StressErrorName, 100*e.MaxStressRelative, fem.DisplacementErrorName, 100*e.RelativeL2, fem.EnergyErrorName, 100*e.RelativeEnergy), inkColour)
+		sh.para(fmt.Sprintf("FE against exact: %s %s of the largest stress, %s %s, %s %s",
+			fem.StressErrorName, units.FormatG("%.3g %%", 100*e.MaxStressRelative), fem.DisplacementErrorName, units.FormatG("%.3g %%", 100*e.RelativeL2),
+			fem.EnergyErrorName, units.FormatG("%.3g %%", 100*e.RelativeEnergy)), inkColour)
 	}
 }

@@ -275,7 +275,7 @@ func pivotMessage(m *Model, nodes []float64, form Formulation, pe *band.PivotErr
 			return fmt.Errorf("the %s stiffness matrix is singular to working precision at the stretch from x = %s to %s, only %s long on a member of %s: supports or changes of section that close together make a piece too stiff to solve; move them apart or, if they are one, make them one point", form.Problem(), a, b, place(h), place(length))
 		}
 	}
-	return fmt.Errorf("the %s stiffness matrix is singular to working precision near x = %s (pivot %.3g of diagonal %.3g): check for very soft springs next to stiff parts, or stiffnesses many orders of magnitude apart", form.Problem(), place(x), pe.Pivot, pe.Diagonal)
+	return fmt.Errorf("the %s stiffness matrix is singular to working precision near x = %s (pivot %s of diagonal %s): check for very soft springs next to stiff parts, or stiffnesses many orders of magnitude apart", form.Problem(), place(x), units.FormatG("%.3g", pe.Pivot), units.FormatG("%.3g", pe.Diagonal))
 }
 
 // shortStretch is the length, relative to the member, below which a stretch

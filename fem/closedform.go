@@ -346,8 +346,7 @@ func (c *Comparison) visitClosed(v *ElementView) {
 // each basis function's part, the particular part's and the thermal
 // offset, largest over the samples.
 func (m *exactMeasures) addClosed(st *exactStretch, v *Interval) {
-	lo, hi := v.Range(QCombinedStress)
-	m.stress = math.Max(m.stress, math.Max(math.Abs(lo.Value), math.Abs(hi.Value)))
+	m.takeStress(v)
 	h := st.length
 	terms := func(t float64) (axial, bending float64) {
 		return st.bar.termSize(1, t)*st.bar.stiffness/h + math.Abs(st.bar.offset),

@@ -182,18 +182,19 @@ type CombinationSolutions struct {
 	// Exact).
 	structure      *Structure
 	exactStructure *ExactStructure
-	// tolerances are shareTolerances of Shares, worked out with them
-	// (SolveCombinations).
-	tolerances [][envelopeValues]float64
+	// floors are forceFloor of each of Shares, worked out with them
+	// (SolveCombinations), which their round-off is judged against
+	// (shareTolerance).
+	floors []floorSizes
 }
 
-// shareTolerances are shareTolerances of cs.Shares: those worked out with
+// shareFloors are forceFloor of each of cs.Shares: those worked out with
 // them, or worked out now where cs was made otherwise.
-func (cs *CombinationSolutions) shareTolerances() [][envelopeValues]float64 {
-	if cs.tolerances == nil {
-		return shareTolerances(cs.Shares)
+func (cs *CombinationSolutions) shareFloors() []floorSizes {
+	if cs.floors == nil {
+		return shareFloors(cs.Shares)
 	}
-	return cs.tolerances
+	return cs.floors
 }
 
 // SolveCombinations solves the member's envelope on mesh with one
@@ -212,7 +213,7 @@ func (p *Member) SolveCombinations(mesh Mesh) (*CombinationSolutions, error) {
 		cs.Shares, err = solveAll(cl.ShareLoads, st.Solve, p.shareName(cl))
 	}
 	if err == nil {
-		cs.tolerances = shareTolerances(cs.Shares)
+		cs.floors = shareFloors(cs.Shares)
 	}
 	return cs, err
 }
@@ -400,10 +401,11 @@ type envelopeWalk struct {
 	// The polynomials of one element: the shares', and one combination's
 	// shares with its factors.
 	sharePoly [][envelopeValues]Polynomial
-	// tolerances are the shares' round-off (shareTolerance).
-	tolerances [][envelopeValues]float64
-	parts      []Polynomial
-	cuts       []float64
+	// floors are the sizes the shares' round-off is judged against
+	// (shareTolerance).
+	floors []floorSizes
+	parts  []Polynomial
+	cuts   []float64
 	// patterned says which combinations switch span shares.
 	patterned []bool
 	// chord, when set, is taken off the deflection of the loads always
@@ -424,7 +426,7 @@ type envelopePoint struct {
 
 func newEnvelopeWalk(cs *CombinationSolutions) *envelopeWalk {
 	w := &envelopeWalk{cs: cs, fixed: make([]Interval, len(cs.Fixed)), shares: make([]Interval, len(cs.Shares)),
-		sharePoly: make([][envelopeValues]Polynomial, len(cs.Shares)), tolerances: cs.shareTolerances()}
+		sharePoly: make([][envelopeValues]Polynomial, len(cs.Shares)), floors: cs.shareFloors()}
 	w.degrees = cs.Fixed[0].degrees()
 	if cs.polynomialExact() {
 		w.exact = true
@@ -662,23 +664,33 @@ func (cs *CombinationSolutions) Envelope() *Envelope {
 
 // zeroRoundOff sets to zero the extremes of qs that are round-off against
 // their field's size (fieldScale, as the summary measures it, with the
-// loads of every load set of sets as the floor): a deflection of 3e-18 m
-// beside one of 30 mm is 0.
+// loads of every load set of sets as the floor, a stress's of the
+// segments where it lies): a deflection of 3e-18 m beside one of 30 mm
+// is 0.
 func zeroRoundOff(qs []QuantityEnvelope, sets []*Solution) {
 	var largest [quantityCount]float64
 	for _, q := range qs {
 		largest[q.Quantity] = max(math.Abs(q.Max.Value), math.Abs(q.Min.Value))
 	}
-	var floor floorSizes
+	m := &sets[0].Model
+	floor := floorSizes{segments: make([][2]float64, len(m.Segments))}
 	for _, s := range sets {
 		f := forceFloor(s)
 		for k := range 3 {
 			floor.all[k], floor.axial[k] = max(floor.all[k], f.all[k]), max(floor.axial[k], f.axial[k])
 		}
+		for k, sg := range f.segments {
+			floor.segments[k] = [2]float64{max(floor.segments[k][0], sg[0]), max(floor.segments[k][1], sg[1])}
+		}
 	}
-	L := sets[0].Model.Length()
+	L := m.Length()
 	for i := range qs {
-		scale := fieldScale(qs[i].Quantity, &largest, L, floor)
+		near := floor
+		switch qs[i].Quantity {
+		case QAxialStress, QBendingStress, QCombinedStress:
+			near = floor.stressNear(m, qs[i].Max.X, qs[i].Min.X)
+		}
+		scale := fieldScale(qs[i].Quantity, &largest, L, near)
 		for _, v := range [2]*float64{&qs[i].Max.Value, &qs[i].Min.Value} {
 			if math.Abs(*v) <= negligible*scale {
 				*v = 0
@@ -700,7 +712,7 @@ func (cs *CombinationSolutions) Within(c int, from, to float64, chord [2]float64
 	one := &CombinationSolutions{
 		Loads: &CombinationLoads{Combinations: cs.Loads.Combinations[c : c+1], Spans: cs.Loads.Spans,
 			Fixed: cs.Loads.Fixed[c : c+1], Shares: cs.Loads.Shares, ShareLoads: cs.Loads.ShareLoads, Factors: cs.Loads.Factors[c : c+1]},
-		Fixed: cs.Fixed[c : c+1], Shares: cs.Shares, tolerances: cs.tolerances}
+		Fixed: cs.Fixed[c : c+1], Shares: cs.Shares, floors: cs.floors}
 	if cs.FixedExact != nil {
 		one.FixedExact, one.SharesExact = cs.FixedExact[c:c+1], cs.SharesExact
 	}
@@ -806,7 +818,7 @@ func (w *envelopeWalk) governing(p *envelopePoint, i int, upper bool) Governing 
 		}
 		poly := polynomialOf(&iv, i)
 		v := f * poly.At(p.xi)
-		if math.Abs(v) <= math.Abs(f)*w.tolerances[j][i] {
+		if math.Abs(v) <= math.Abs(f)*shareTolerance(w.floors[j], &cs.Shares[j].Model, i, p.x) {
 			continue // round-off where the share does nothing
 		}
 		if upper && v > 0 || !upper && v < 0 {
@@ -817,13 +829,14 @@ func (w *envelopeWalk) governing(p *envelopePoint, i int, upper bool) Governing 
 }
 
 // shareTolerance is the size below which a share's value i (an index of
-// envelopeValues) is round-off: negligible against the size of the
-// share's own forces (forceFloor: its loads, reactions and imposed
-// deformations), in the unit of value i.
-func shareTolerance(s *Solution, i int) float64 {
-	floor := forceFloor(s).all
-	L := s.Model.Length()
-	size := floor[1] // the stresses, and the fibres' after the quantities
+// envelopeValues) at x (m) is round-off: negligible against the size of
+// the share's own forces (its forceFloor f: its loads, reactions and
+// imposed deformations), in the unit of value i; a stress against the
+// sections at x (floorSizes.stressNear). m is the share's model.
+func shareTolerance(f floorSizes, m *Model, i int, x float64) float64 {
+	floor := f.all
+	L := m.Length()
+	size := f.stressNear(m, x).all[1] // the stresses, and the fibres' after the quantities
 	if i < polynomialQuantities {
 		switch Quantity(i) {
 		case QAxialDisplacement, QDeflection:
@@ -839,13 +852,11 @@ func shareTolerance(s *Solution, i int) float64 {
 	return negligible * size
 }
 
-// shareTolerances are shareTolerance of every value of every share.
-func shareTolerances(shares []*Solution) [][envelopeValues]float64 {
-	out := make([][envelopeValues]float64, len(shares))
+// shareFloors are forceFloor of every share.
+func shareFloors(shares []*Solution) []floorSizes {
+	out := make([]floorSizes, len(shares))
 	for j, s := range shares {
-		for i := range envelopeValues {
-			out[j][i] = shareTolerance(s, i)
-		}
+		out[j] = forceFloor(s)
 	}
 	return out
 }
@@ -921,13 +932,14 @@ func (cs *CombinationSolutions) foundationEnvelope() []FoundationEnvelope {
 func (cs *CombinationSolutions) linearEnvelope(x float64, value func(*Solution) float64, moment bool) (lo, hi Governing) {
 	shares := make([]float64, len(cs.Shares))
 	tolerances := make([]float64, len(cs.Shares))
+	floors := cs.shareFloors()
 	for j, sh := range cs.Shares {
 		shares[j] = value(sh)
 		q := QShearForce
 		if moment {
 			q = QBendingMoment
 		}
-		tolerances[j] = shareTolerance(sh, int(q))
+		tolerances[j] = shareTolerance(floors[j], &sh.Model, int(q), x)
 	}
 	for c, s := range cs.Fixed {
 		l, h := cs.worst(c, value(s), shares, tolerances)
@@ -978,12 +990,12 @@ func (cs *CombinationSolutions) Arranged(c int, qs []Quantity, x float64, side S
 		shares[j] = e.At(x, side)
 	}
 	fixed := cs.FixedExact[c].At(x, side)
-	tolerances := cs.shareTolerances()
+	floors := cs.shareFloors()
 	column, tolerance := make([]float64, n), make([]float64, n)
 	lo, hi = make([]Governing, len(qs)), make([]Governing, len(qs))
 	for k, q := range qs {
 		for j := range shares {
-			column[j], tolerance[j] = q.Of(&shares[j]), tolerances[j][q]
+			column[j], tolerance[j] = q.Of(&shares[j]), shareTolerance(floors[j], &cs.Shares[j].Model, int(q), x)
 		}
 		lo[k], hi[k] = cs.worst(c, q.Of(&fixed), column, tolerance)
 		lo[k].X, hi[k].X = x, x
@@ -1001,11 +1013,12 @@ func (cs *CombinationSolutions) ArrangedReaction(c, i int, d Dof) (lo, hi Govern
 		q = QBendingMoment
 	}
 	shares, tolerances := make([]float64, len(cs.SharesExact)), make([]float64, len(cs.SharesExact))
+	floors := cs.shareFloors()
+	x := cs.Fixed[0].Model.Supports[i].X
 	for j, e := range cs.SharesExact {
-		shares[j], tolerances[j] = e.reactions[i].Force[d], cs.shareTolerances()[j][q]
+		shares[j], tolerances[j] = e.reactions[i].Force[d], shareTolerance(floors[j], &cs.Shares[j].Model, int(q), x)
 	}
 	lo, hi = cs.worst(c, cs.FixedExact[c].reactions[i].Force[d], shares, tolerances)
-	x := cs.Fixed[0].Model.Supports[i].X
 	lo.X, hi.X = x, x
 	return lo, hi
 }
@@ -1034,10 +1047,14 @@ func (cs *CombinationSolutions) At(x float64, side Side, exact bool) EnvelopeSam
 		return cs.Fixed[k].At(x, side)
 	}
 	shares := make([][envelopeValues]float64, len(cs.Shares))
-	tolerances := cs.shareTolerances()
+	tolerances := make([][envelopeValues]float64, len(cs.Shares))
+	floors := cs.shareFloors()
 	for j := range shares {
 		f := at(j, true)
 		shares[j] = sampleValues(&f)
+		for i := range envelopeValues {
+			tolerances[j][i] = shareTolerance(floors[j], &cs.Shares[j].Model, i, x)
+		}
 	}
 	var lo, hi [envelopeValues]float64
 	var loBy, hiBy [envelopeValues]int

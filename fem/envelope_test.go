@@ -525,3 +525,46 @@ func TestFoundationEnvelopeWithoutRoundOff(t *testing.T) {
 		t.Errorf("the ground's largest resultant across the member is %g N, want the loads' %g N", hi, 1.35*5e4*L)
 	}
 }
+
+// A stress in the envelope is measured against the section it acts on: an
+// unloaded overhang of an absurdly weak section (I = 8e-20 m⁴ beside the
+// span's 8e-6 m⁴) made the span's stresses round-off, and the envelope's
+// combined stress read 0 with no span loaded. A simply supported 4 m span
+// under q = 10 kN/m always on and the same placed by span has
+// M = 2·qL²/8 = 40 kN·m at midspan with the span loaded (Gere & Goodno,
+// Mechanics of Materials, Appendix D, from memory), so σ = M·c/I =
+// 40e3 · 0.1 / 8e-6 = 500 MPa in tension and compression (flexure formula,
+// same book), with span 1 (share 0) loaded.
+func TestEnvelopeStressAgainstItsOwnSection(t *testing.T) {
+	section := func(I float64) Section { return Section{Area: 4e-3, SecondMoment: I, FibreDistance: 0.1} }
+	steel := Material{Elastic: 200e9}
+	uniform := []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -10e3}, {4, -10e3}}}}
+	m := &Model{
+		Segments: []Segment{{Start: 0, End: 4, Section: section(8e-6), Material: steel},
+			{Start: 4, End: 5, Section: section(8e-20), Material: steel}},
+		Supports: []Support{{X: 0, Kind: Pinned}, {X: 4, Kind: Roller}},
+		Cases: []LoadCase{{Name: "dead", DistributedLoad: uniform},
+			{Name: "imposed", DistributedLoad: slices.Clone(uniform), BySpan: true}},
+		Combinations: []Combination{{Name: "all", Factors: []CaseFactor{{0, 1}, {1, 1}}}},
+		Mesh:         MeshSettings{Elements: 8},
+	}
+	_, cs := solveCombinations(t, m)
+	const sigma = 500e6
+	for _, q := range cs.Envelope().Quantities {
+		if q.Quantity != QCombinedStress {
+			continue
+		}
+		for _, g := range []struct {
+			got  Governing
+			want float64
+		}{{q.Max, sigma}, {q.Min, -sigma}} {
+			if math.Abs(g.got.Value-g.want) > 1e-9*sigma || !slices.Equal(g.got.Loaded, []Share{{Case: 1, Span: 0}}) {
+				t.Errorf("combined stress %g Pa at x = %g with %+v loaded, want %g with span 1", g.got.Value, g.got.X, g.got.Loaded, g.want)
+			}
+		}
+	}
+	at := cs.At(2, Right, true)
+	if math.Abs(at.Hi.CombinedStress-sigma) > 1e-9*sigma {
+		t.Errorf("envelope at x = 2 m: largest combined stress %g Pa, want %g", at.Hi.CombinedStress, sigma)
+	}
+}

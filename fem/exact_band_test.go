@@ -254,3 +254,21 @@ func TestExactRefusesIllConditioned(t *testing.T) {
 		t.Errorf("ExactStructure gave a structure (%v) or another error: %v", es != nil, serr)
 	}
 }
+
+// A singular system's condition number is infinite, which fmt's %g writes
+// "+Inf" (Go's fmt documentation, from memory): the messages say it in
+// words.
+func TestSingularConditionInWords(t *testing.T) {
+	for _, msg := range []string{
+		(&SingularError{Condition: math.Inf(1)}).Error(),
+		conditionWarning("beam", math.Inf(1)),
+		conditionWarning("bar", math.NaN()),
+	} {
+		if strings.Contains(msg, "Inf") || strings.Contains(msg, "NaN") {
+			t.Errorf("%q prints a value that is not finite as fmt writes it", msg)
+		}
+	}
+	if msg := (&SingularError{Condition: math.Inf(1)}).Error(); !strings.Contains(msg, "condition number infinite") {
+		t.Errorf("%q does not say the condition number is infinite", msg)
+	}
+}

@@ -6,6 +6,7 @@ import (
 	"math"
 
 	"stave/fem/band"
+	"stave/fem/units"
 )
 
 // The exact solution's equations, one problem (bar or beam) at a time, have
@@ -139,7 +140,7 @@ type SingularError struct {
 }
 
 func (e *SingularError) Error() string {
-	return fmt.Sprintf("the exact solution cannot be found: its equations are singular or nearly so (condition number %.3g after scaling); look for springs of extreme stiffness, supports or loads very close together, or very different sections side by side", e.Condition)
+	return fmt.Sprintf("the exact solution cannot be found: its equations are singular or nearly so (condition number %s after scaling); look for springs of extreme stiffness, supports or loads very close together, or very different sections side by side", units.FormatG("%.3g", e.Condition))
 }
 
 // errExactSingular says the exact solution's equations cannot be trusted.

@@ -118,6 +118,7 @@ type errorIntegrals struct {
 // L2 norms of the strains and curvatures those terms make (m and 1/m).
 type exactMeasures struct {
 	stress, stressTerms       float64
+	stressAt                  float64 // where stress is reached, m
 	disp, energy, energyTerms float64
 	strainTerms, curveTerms   float64
 }
@@ -141,8 +142,7 @@ func (m *exactMeasures) add(st *exactStretch, v *Interval) {
 		m.addClosed(st, v)
 		return
 	}
-	lo, hi := v.Range(QCombinedStress)
-	m.stress = math.Max(m.stress, math.Max(math.Abs(lo.Value), math.Abs(hi.Value)))
+	m.takeStress(v)
 	// The sizes Σ|term| of the terms that make N (the thermal term included)
 	// and M: round-off in them is relative to these. Their coefficients are
 	// not negative, so they are largest at the stretch's end.
@@ -173,6 +173,17 @@ func (m *exactMeasures) add(st *exactStretch, v *Interval) {
 		m.energyTerms += q.w * h * (at*at/ea + bt*bt/ei)
 		m.strainTerms += q.w * h * at * at / (ea * ea)
 		m.curveTerms += q.w * h * bt * bt / (ei * ei)
+	}
+}
+
+// takeStress takes the largest combined stress of v, and where it is.
+func (m *exactMeasures) takeStress(v *Interval) {
+	lo, hi := v.Range(QCombinedStress)
+	if math.Abs(lo.Value) > math.Abs(hi.Value) {
+		hi = lo
+	}
+	if math.Abs(hi.Value) > m.stress {
+		m.stress, m.stressAt = math.Abs(hi.Value), hi.X
 	}
 }
 
@@ -290,17 +301,19 @@ func (c *Comparison) Norms() ErrorNorms {
 		}
 		return fe
 	}
-	// The loads' scale (forceFloor): a stress, a displacement over the
-	// member's length (its L2 norm) and the work of that force through that
-	// displacement (the energy norm's square).
-	L := c.solution.Model.Length()
+	// The loads' scale (forceFloor): a stress, of the section the largest
+	// exact stress acts on, a displacement over the member's length (its
+	// L2 norm) and the work of that force through that displacement (the
+	// energy norm's square).
+	model := &c.solution.Model
+	L := model.Length()
 	floor := forceFloor(c.solution)
 	return ErrorNorms{
 		MaxDeflection: m.deflection,
 		MaxAxial:      m.axial,
 		MaxStress:     m.stress,
 		MaxStressAt:   m.stressAt,
-		MaxStressRelative: relativeError(m.stress, ex.stress, max(ex.stressTerms, floor.all[1]),
+		MaxStressRelative: relativeError(m.stress, ex.stress, max(ex.stressTerms, floor.stressNear(model, ex.stressAt).all[1]),
 			func() float64 { return own().stressTerms }),
 		RelativeL2: relativeError(math.Sqrt(in.dispErr), math.Sqrt(ex.disp),
 			max(math.Sqrt(ex.disp), ex.dispTerms(L), floor.all[2]*math.Sqrt(L)),

@@ -225,3 +225,86 @@ func TestCompareLoadIntoSupport(t *testing.T) {
 		}
 	}
 }
+
+// A beam on a stiff elastic foundation deflects little, and its
+// displacement error is real, not round-off: a 12 m ground beam (E = 30
+// GPa, I = 0.0256 m⁴) under 600 kN at x = 1.5 m and x = 10.5 m on a bed of
+// k = 1e15 N/m² deflects P·β/(2k) under each load, β = (k/4EI)^¼ (Hetényi,
+// Beams on Elastic Foundation, infinite beam under a concentrated load,
+// from memory; the ends and the other load lie 36/β and more away). The
+// displacements were measured against what the loads would bend the
+// member over its whole length, P·L³/EI, 1e8 times more: the error read
+// 0 % on every mesh of a convergence study, and at 1e17 N/m² the
+// deflection itself read 0. The error is checked against its definition
+// (ErrorNorms: the root mean square of w_h − w over that of w), integrated
+// here on a fine grid.
+func TestDisplacementErrorOnAStiffFoundation(t *testing.T) {
+	const L, E, I, P = 12.0, 30e9, 0.0256, 600e3
+	for _, c := range []struct {
+		k        float64
+		elements int
+	}{{1e15, 4}, {1e15, 600}, {1e17, 600}} {
+		m := &Model{
+			Segments: []Segment{{Start: 0, End: L, Section: Section{Area: 0.48, SecondMoment: I, FibreDistance: 0.4},
+				Material: Material{Elastic: E}}},
+			Supports:    []Support{{X: 6, Kind: AxialOnly}},
+			Foundations: []Foundation{{Start: 0, End: L, Modulus: c.k}},
+			PointLoads:  []PointLoad{{X: 1.5, Transverse: -P}, {X: 10.5, Transverse: -P}},
+			Mesh:        MeshSettings{Elements: c.elements},
+		}
+		s, e := solveBoth(t, m)
+		beta := math.Pow(c.k/(4*E*I), 0.25)
+		want := -P * beta / (2 * c.k)
+		if w := e.At(1.5, Right).Deflection; !relNear(w, want, 1e-6) {
+			t.Fatalf("k = %g N/m²: exact deflection under the load %g m, Hetényi %g m", c.k, w, want)
+		}
+		sum := Summarize(s, e)
+		if d := sum.Extremes[QDeflection]; !relNear(d.Min, want, 1e-6) {
+			t.Errorf("k = %g N/m², %d elements: smallest deflection %g m, want %g m", c.k, c.elements, d.Min, want)
+		}
+		const n = 200000
+		var diff, size float64
+		for i := range n + 1 {
+			x := L * float64(i) / n
+			w, wh := e.At(x, Right).Deflection, s.At(x, Right).Deflection
+			f := 1.0
+			if i == 0 || i == n {
+				f = 0.5
+			}
+			diff += f * (wh - w) * (wh - w)
+			size += f * w * w
+		}
+		want = math.Sqrt(diff / size)
+		if got := sum.ExactError.RelativeL2; !relNear(got, want, 0.02) {
+			t.Errorf("k = %g N/m², %d elements: displacement error %g, want %g", c.k, c.elements, got, want)
+		}
+	}
+}
+
+// Along the member alike: a 10 m bar (EA = 8e8 N) on an axial bed of
+// kₐ = 1e20 N/m² pulled by P = 100 kN at its free end x = 0 stretches
+// u(0) = P/(EA·α), α = √(kₐ/EA), and the bed holds the rest (the
+// semi-infinite bar on an elastic bed, EA·u″ = kₐ·u, from memory). Against
+// P·L/EA, 1e10 times more, its displacement and their error read 0.
+func TestAxialDisplacementOnAStiffBed(t *testing.T) {
+	const L, EA, P, ka = 10.0, 8e8, 100e3, 1e20
+	m := &Model{
+		Segments:    []Segment{{Start: 0, End: L, Section: Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1}, Material: Material{Elastic: EA / 0.004}}},
+		Foundations: []Foundation{{Start: 0, End: L, AxialModulus: ka}},
+		PointLoads:  []PointLoad{{X: 0, Axial: -P}},
+		AxialOnly:   true,
+		Mesh:        MeshSettings{Elements: 4},
+	}
+	s, e := solveBoth(t, m)
+	want := -P / (EA * math.Sqrt(ka/EA))
+	if u := e.At(0, Right).AxialDisplacement; !relNear(u, want, 1e-6) {
+		t.Fatalf("exact u(0) = %g m, want %g m", u, want)
+	}
+	sum := Summarize(s, e)
+	if u := sum.Extremes[QAxialDisplacement]; !relNear(u.Min, want, 1e-6) {
+		t.Errorf("smallest axial displacement %g m, want %g m", u.Min, want)
+	}
+	if sum.ExactError.RelativeL2 == 0 {
+		t.Errorf("displacement error 0 on 4 elements over a decay length of %g m", 1/math.Sqrt(ka/EA))
+	}
+}

@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"math"
 	"math/bits"
+
+	"stave/fem/units"
 )
 
 // Solution is the finite element answer for one model.
@@ -71,7 +73,7 @@ func conditionWarning(problem string, cond float64) string {
 	const eps = 0x1p-52
 	switch {
 	case cond*eps >= 1:
-		return fmt.Sprintf("the %s stiffness matrix is singular to working precision (estimated condition number %.2g, beyond 1/ε of float64): the results are meaningless; check for springs or sections of extreme stiffness, or supports and loads almost at one point", problem, cond)
+		return fmt.Sprintf("the %s stiffness matrix is singular to working precision (estimated condition number %s, beyond 1/ε of float64): the results are meaningless; check for springs or sections of extreme stiffness, or supports and loads almost at one point", problem, units.FormatG("%.2g", cond))
 	case cond > conditionLimit:
 		return fmt.Sprintf("the %s stiffness matrix is ill-conditioned (estimated condition number %.2g): results are unreliable, with relative errors possibly up to %.0e; avoid extreme stiffness contrasts and supports or loads very close together", problem, cond, cond*eps)
 	}

@@ -338,18 +338,26 @@ func (t *stretchTakes) into(x *extremes) {
 }
 
 // withExact makes the exact extremes ex the headline values of list and
-// measures the finite element ones against them.
-func withExact(list []Extreme, ex *extremes, L float64, floor floorSizes) {
+// measures the finite element ones against them. A stress is measured
+// against the stress sizes of the segments where the extremes lie
+// (floorSizes.stressNear).
+func withExact(list []Extreme, ex *extremes, m *Model, floor floorSizes) {
 	exact := ex.list()
 	var largest [quantityCount]float64
 	for i, e := range exact {
 		largest[i] = math.Max(math.Abs(e.FEMax), math.Abs(e.FEMin))
 	}
+	L := m.Length()
 	for i := range list {
 		e, x := &list[i], &exact[i]
 		e.Max, e.XMax, e.Min, e.XMin = x.FEMax, x.FEXMax, x.FEMin, x.FEXMin
 		off := math.Max(math.Abs(e.FEMax-e.Max), math.Abs(e.FEMin-e.Min))
-		if scale := fieldScale(e.Quantity, &largest, L, floor); scale > 0 {
+		near := floor
+		switch e.Quantity {
+		case QAxialStress, QBendingStress, QCombinedStress:
+			near = floor.stressNear(m, e.XMax, e.XMin, e.FEXMax, e.FEXMin)
+		}
+		if scale := fieldScale(e.Quantity, &largest, L, near); scale > 0 {
 			e.Accuracy = off / scale
 			// A value that is round-off against the field's size (a moment
 			// at a free end, 1e-14 kN·m) is zero, as the closed form says.
@@ -364,17 +372,47 @@ func withExact(list []Extreme, ex *extremes, L float64, floor floorSizes) {
 
 // floorSizes are the sizes forceFloor finds, each a force (N), a stress
 // (Pa) and a displacement (m): of the whole model, and of its axial
-// problem alone (the forces along the member and what they stretch).
-type floorSizes struct{ all, axial [3]float64 }
+// problem alone (the forces along the member and what they stretch). The
+// stresses are the largest of any segment's; segments holds each
+// segment's own, [0] of the whole model and [1] of the axial problem: a
+// stress is round-off against the section it acts on, and a segment of a
+// far weaker section than the rest does not make the others' stresses
+// round-off.
+type floorSizes struct {
+	all, axial [3]float64
+	segments   [][2]float64
+}
+
+// stressNear is f with the stress sizes of the segments holding the
+// points xs (m) only, where stresses are read: at each point the smaller
+// size of the segments that meet there, the largest over the points.
+func (f floorSizes) stressNear(m *Model, xs ...float64) floorSizes {
+	if len(f.segments) == 0 {
+		return f
+	}
+	var all, axial float64
+	for _, x := range xs {
+		i := m.SegmentAt(x)
+		a, b := f.segments[i][0], f.segments[i][1]
+		if i > 0 && x <= m.Segments[i].Start {
+			a, b = min(a, f.segments[i-1][0]), min(b, f.segments[i-1][1])
+		}
+		all, axial = max(all, a), max(axial, b)
+	}
+	f.all[1], f.axial[1] = all, axial
+	return f
+}
 
 // forceFloor is the size the internal forces of s's model are at least
 // measured against, N, its stresses, Pa, and its displacements, m: the
 // loads applied and the supports' actions (each, not their sum), and the
 // imposed deformations fully restrained (Model.ImposedScales), a moment
-// counted as a force by dividing by the length; the stress, the force on
-// the smallest area or the moment on the smallest section modulus; the
+// counted as a force by dividing by the length; the stress, per segment
+// the force on its area or the moment on its section modulus (and of the
+// whole model the largest of these); the
 // displacement, what that force stretches or bends the most flexible
-// segment over the member's length (F·L/EA, F·L³/EI). The forces along the
+// segment over the member's length (F·L/EA, F·L³/EI), or over the shorter
+// length a stiff foundation spreads it over (groundLengths). The forces along the
 // member only stretch it and those across it and the moments only bend it
 // (linear theory), so each sets only its own share of the stress and the
 // displacement: a large axial force does not make a real deflection beside
@@ -396,30 +434,62 @@ func forceFloor(s *Solution) floorSizes {
 	if L > 0 {
 		across = max(across, moment/L)
 	}
-	var f floorSizes
+	f := floorSizes{segments: make([][2]float64, len(m.Segments))}
 	f.all[0], f.axial[0] = max(axial, across), axial
-	for _, sg := range m.Segments {
+	for i, sg := range m.Segments {
 		if sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
-			f.axial[1] = max(f.axial[1], axial/sg.Section.Area)
-			f.all[1] = max(f.all[1], f.axial[1], across*L*sg.Section.FibreDistance/sg.Section.SecondMoment)
+			own := axial / sg.Section.Area
+			f.segments[i] = [2]float64{max(own, across*L*sg.Section.FibreDistance/sg.Section.SecondMoment), own}
+			f.axial[1] = max(f.axial[1], own)
+			f.all[1] = max(f.all[1], f.segments[i][0])
 		}
 		if e := sg.Material.Elastic; e > 0 && sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
-			f.axial[2] = max(f.axial[2], axial*L/(e*sg.Section.Area))
-			f.all[2] = max(f.all[2], f.axial[2], across*L*L*L/(e*sg.Section.SecondMoment))
+			ea, ei := e*sg.Section.Area, e*sg.Section.SecondMoment
+			la, lb := groundLengths(m, ea, ei)
+			f.axial[2] = max(f.axial[2], axial*la/ea)
+			f.all[2] = max(f.all[2], f.axial[2], across*lb*lb*lb/ei)
 		}
 	}
 	return f
 }
 
-// LoadScales are the force (N), stress (Pa) and displacement (m) that the
-// internal forces, stresses and displacements of s are at least measured
-// against (forceFloor): what the loads, each support's action and the
-// imposed deformations fully restrained make. A value below a billionth of
-// its scale is round-off, as the summary's extremes read it: where the
-// loads go straight into the supports, the member carries nothing.
-func (s *Solution) LoadScales() (force, stress, displacement float64) {
+// groundLengths are the lengths over which the forces along and across a
+// member of m stretch and bend a segment of rigidities ea and ei: the
+// member's length, or on an elastic foundation that holds the member the
+// length over which the stiffest foundation spreads a force, if shorter:
+// 1/α = √(EA/kₐ) along (the bar on an elastic bed, from memory) and
+// 1/β = (4EI/k)^¼ across (Hetényi, Beams on Elastic Foundation: a force P
+// deflects a long beam P·β/(2k) = P/(8EI·β³), from memory). A stiff bed
+// holds the deflection far under P·L³/EI, which would make a real
+// deflection and its error round-off.
+func groundLengths(m *Model, ea, ei float64) (along, across float64) {
+	L := m.Length()
+	along, across = L, L
+	for _, g := range m.Foundations {
+		if g.AxialModulus > 0 {
+			along = min(along, math.Sqrt(ea/g.AxialModulus))
+		}
+		if g.Modulus > 0 {
+			across = min(across, math.Sqrt(math.Sqrt(4*ei/g.Modulus)))
+		}
+	}
+	return along, across
+}
+
+// LoadScales are the force (N), the stress of each segment (Pa, in the
+// model's order) and the displacement (m) that the internal forces,
+// stresses and displacements of s are at least measured against
+// (forceFloor): what the loads, each support's action and the imposed
+// deformations fully restrained make. A value below a billionth of its
+// scale is round-off, as the summary's extremes read it: where the loads
+// go straight into the supports, the member carries nothing.
+func (s *Solution) LoadScales() (force float64, stress []float64, displacement float64) {
 	f := forceFloor(s)
-	return f.all[0], f.all[1], f.all[2]
+	stress = make([]float64, len(f.segments))
+	for i, sg := range f.segments {
+		stress[i] = sg[0]
+	}
+	return f.all[0], stress, f.all[2]
 }
 
 // fieldScale is the size quantity q is measured against: its largest
@@ -602,9 +672,8 @@ func (z *Summarizer) Summary() Summary {
 	}
 	sum.Foundations = foundationSummaries(s, ex)
 	sum.Extremes = z.extremes.list()
-	L := s.Model.Length()
 	if ex != nil {
-		withExact(sum.Extremes, ex.ownExtremes(), L, forceFloor(s))
+		withExact(sum.Extremes, ex.ownExtremes(), &s.Model, forceFloor(s))
 	}
 	sum.Supports = supportActions(s, ex)
 	if s.AxialOnly {

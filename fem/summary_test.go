@@ -560,3 +560,45 @@ func TestSummaryNamesTheElements(t *testing.T) {
 		}
 	}
 }
+
+// A stress is measured against the section it acts on: an unloaded
+// overhang of an absurdly weak section (I = 8e-20 m⁴ beside the span's
+// 8e-6 m⁴) set the round-off scale of every stress in the member, and the
+// span's 250 MPa read 0 in the extremes and the stress error 0 %. A simply
+// supported 4 m span under q = 10 kN/m has M = qL²/8 = 20 kN·m at midspan
+// (Gere & Goodno, Mechanics of Materials, Appendix D, from memory), so
+// σ = M·c/I = 20e3 · 0.1 / 8e-6 = 250 MPa in tension and compression
+// (flexure formula, same book); the overhang carries nothing (statics).
+func TestSummaryStressAgainstItsOwnSection(t *testing.T) {
+	section := func(I float64) Section { return Section{Area: 4e-3, SecondMoment: I, FibreDistance: 0.1} }
+	steel := Material{Elastic: 200e9}
+	m := &Model{
+		Segments: []Segment{{Start: 0, End: 4, Section: section(8e-6), Material: steel},
+			{Start: 4, End: 5, Section: section(8e-20), Material: steel}},
+		Supports:        []Support{{X: 0, Kind: Pinned}, {X: 4, Kind: Roller}},
+		DistributedLoad: []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -10e3}, {4, -10e3}}}},
+		Mesh:            MeshSettings{Elements: 8},
+	}
+	sum := Summarize(solveBoth(t, m))
+	const sigma = 250e6
+	for _, q := range []Quantity{QBendingStress, QCombinedStress} {
+		x := sum.Extremes[q]
+		if !relNear(x.Max, sigma, 1e-9) || !relNear(x.FEMax, sigma, 0.02) {
+			t.Errorf("%s: largest %g (exact) and %g (FE), want %g", q, x.Max, x.FEMax, sigma)
+		}
+		want := max(math.Abs(x.FEMax-x.Max), math.Abs(x.FEMin-x.Min)) / max(math.Abs(x.Max), math.Abs(x.Min))
+		if want == 0 || !relNear(x.Accuracy, want, 1e-9) {
+			t.Errorf("%s: accuracy %g, want %g, the larger error of the extremes over the largest stress", q, x.Accuracy, want)
+		}
+	}
+	if x := sum.Extremes[QCombinedStress]; !relNear(x.Min, -sigma, 1e-9) {
+		t.Errorf("combined stress: smallest %g (exact), want %g", x.Min, -sigma)
+	}
+	n := sum.ExactError
+	if want := n.MaxStress / sigma; n.MaxStress == 0 || !relNear(n.MaxStressRelative, want, 1e-9) {
+		t.Errorf("stress error %g Pa, relative %g, want %g of the largest exact stress", n.MaxStress, n.MaxStressRelative, want)
+	}
+}
+
+// relNear says whether got is within a share tol of want.
+func relNear(got, want, tol float64) bool { return math.Abs(got-want) <= tol*math.Abs(want) }

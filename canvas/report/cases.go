@@ -100,8 +100,8 @@ type EnvelopeAccuracyJSON struct {
 
 // Words say how far to trust a finite element envelope, in a sentence.
 func (a *EnvelopeAccuracyJSON) Words() string {
-	return fmt.Sprintf("Its values are the finite element ones on this mesh: the combinations' FE extremes are within %.3g %% of a field's largest magnitude of their exact ones (worst: %s in %s).",
-		100*a.Ratio, a.quantity.Info().Name, a.Combination)
+	return fmt.Sprintf("Its values are the finite element ones on this mesh: the combinations' FE extremes are within %s of a field's largest magnitude of their exact ones (worst: %s in %s).",
+		units.FormatG("%.3g %%", 100*a.Ratio), a.quantity.Info().Name, a.Combination)
 }
 
 // QuantityEnvelope is one quantity's largest and smallest value.

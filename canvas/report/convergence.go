@@ -22,6 +22,17 @@ func RateText(r float64) string {
 	return fmt.Sprintf("%.2f", r)
 }
 
+// errorText writes a relative error with four figures, "round-off" for
+// one the comparison reads as zero (fem.ErrorNorms reads a difference
+// negligible against its scale as 0: it is not known to be exactly zero,
+// only to be lost in round-off), and in words one that is not finite.
+func errorText(e float64) string {
+	if e == 0 {
+		return "round-off"
+	}
+	return units.FormatG("%.3e", e)
+}
+
 // jsonNumber turns NaN (no rate measurable) into null.
 func jsonNumber(v float64) *float64 {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
@@ -116,7 +127,7 @@ func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Vers
 		fmt.Fprintln(w, "as the elements reproduce point loads and moments, settlements and temperature changes between nodes (linear bars and Hermite beams, with shear")
 		fmt.Fprintln(w, "deformation too), and a uniform axial load on quadratic bars. There is no rate to measure.")
 	} else {
-		fmt.Fprintf(w, "(errors relative: %s, %s, %s; rate = log(error ratio) / log(element ratio); - in the first row and where either error is at round-off)\n",
+		fmt.Fprintf(w, "(errors relative: %s, %s, %s, round-off where the comparison cannot tell one from zero; rate = log(error ratio) / log(element ratio); - in the first row and where either error is at round-off)\n",
 			fem.StressErrorName, fem.DisplacementErrorName, fem.EnergyErrorName)
 		if t.LoadSets > 1 {
 			fmt.Fprintf(w, "(each error the largest over the model's %d load cases, each case against its own exact solution)\n", t.LoadSets)
@@ -124,8 +135,8 @@ func WriteConvergenceText(w io.Writer, name string, t study.Table, v *study.Vers
 		tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', tabwriter.AlignRight)
 		fmt.Fprintln(tw, "per stretch\telements\tstress\trate\tdisplacement\trate\tenergy\trate\t")
 		for _, r := range t.Rows {
-			fmt.Fprintf(tw, "%d\t%d\t%.3e\t%s\t%.3e\t%s\t%.3e\t%s\t\n", r.PerStretch, r.Elements,
-				r.MaxStress, RateText(r.StressRate), r.L2, RateText(r.L2Rate), r.Energy, RateText(r.EnergyRate))
+			fmt.Fprintf(tw, "%d\t%d\t%s\t%s\t%s\t%s\t%s\t%s\t\n", r.PerStretch, r.Elements,
+				errorText(r.MaxStress), RateText(r.StressRate), errorText(r.L2), RateText(r.L2Rate), errorText(r.Energy), RateText(r.EnergyRate))
 		}
 		tw.Flush()
 		rate := func(r study.Rate) string {
@@ -164,7 +175,7 @@ func WriteAdaptiveText(w io.Writer, v study.Versus, uniformErr error) {
 	tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', tabwriter.AlignRight)
 	fmt.Fprintln(tw, "elements\testimated\ttrue\teffectivity\t")
 	for _, it := range v.Adaptive.Iterations {
-		fmt.Fprintf(tw, "%d\t%.3e\t%.3e\t%s\t\n", it.Elements, it.Estimated, it.True, RateText(it.Effectivity))
+		fmt.Fprintf(tw, "%d\t%s\t%s\t%s\t\n", it.Elements, errorText(it.Estimated), errorText(it.True), RateText(it.Effectivity))
 	}
 	tw.Flush()
 	switch {
@@ -179,8 +190,8 @@ func WriteAdaptiveText(w io.Writer, v study.Versus, uniformErr error) {
 	case uniformErr != nil:
 		fmt.Fprintf(w, "Uniform refinement was not compared: %v\n", uniformErr)
 	default:
-		fmt.Fprintf(w, "Uniform refinement needs %d elements for the same true error (%.3e; adaptive %.3e with %d elements).\n",
-			v.UniformElements, v.UniformTrue, v.AdaptiveTrue, len(v.Adaptive.Nodes)-1)
+		fmt.Fprintf(w, "Uniform refinement needs %d elements for the same true error (%s; adaptive %s with %d elements).\n",
+			v.UniformElements, errorText(v.UniformTrue), errorText(v.AdaptiveTrue), len(v.Adaptive.Nodes)-1)
 	}
 }
 

@@ -264,3 +264,21 @@ func barUnderUniformAxialLoad() fem.Model {
 		Supports:        []fem.Support{{X: 0, Kind: fem.Fixed}},
 		DistributedLoad: []fem.DistributedLoad{{Direction: fem.Axial, Points: []fem.LoadPoint{{X: 0, Intensity: 10e3}, {X: 4, Intensity: 10e3}}}}}
 }
+
+// An error the comparison reads as zero is round-off (fem.ErrorNorms: a
+// difference negligible against its scale reads 0), not an exact zero,
+// and the table says so; it printed "0.000e+00". The rows are written as
+// given (a table made by hand), and each other cell keeps its figures.
+func TestConvergenceTextSaysRoundOffForZero(t *testing.T) {
+	nan := math.NaN()
+	table := study.Table{Rows: []study.Row{
+		{PerStretch: 1, Elements: 4, MaxStress: 0.25, L2: 0, Energy: 0.125, RoundOff: study.RoundOff, StressRate: nan, L2Rate: nan, EnergyRate: nan},
+		{PerStretch: 2, Elements: 8, MaxStress: 0.0625, L2: 0, Energy: 0.0625, RoundOff: study.RoundOff, StressRate: 2, L2Rate: nan, EnergyRate: 1},
+	}, Stress: study.Rate{Fitted: 2, Last: 2}, L2: study.Rate{Fitted: nan, Last: nan}, Energy: study.Rate{Fitted: 1, Last: 1}, LoadSets: 1}
+	var buf bytes.Buffer
+	WriteConvergenceText(&buf, "by hand", table, nil, nil, nil)
+	text := buf.String()
+	if strings.Contains(text, "0.000e+00") || strings.Count(text, "round-off") < 3 || !strings.Contains(text, "6.250e-02") {
+		t.Errorf("zero errors should read round-off, the others as numbers:\n%s", text)
+	}
+}

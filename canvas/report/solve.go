@@ -680,14 +680,15 @@ func WriteResultsText(w io.Writer, src Source) {
 	WriteChecksText(w, src)
 }
 
-// percent writes a fraction as a percentage with three figures.
-func percent(v float64) string { return fmt.Sprintf("%.3g %%", 100*v) }
+// percent writes a fraction as a percentage with three figures, in words
+// where it is not a finite number (units.FormatG).
+func percent(v float64) string { return units.FormatG("%.3g %%", 100*v) }
 
 // WriteMeshText writes the line on the mesh: its size, who chose it and
 // how, and the accuracy its extremes reach against the exact ones.
 func WriteMeshText(w io.Writer, sum fem.Summary) {
-	fmt.Fprintf(w, "Mesh: %s, %s, %s, condition estimate %.2g\n",
-		units.Count(sum.Mesh.Elements, "element"), units.Count(sum.Mesh.Nodes, "node"), sum.Mesh.Kinds, sum.Mesh.Condition)
+	fmt.Fprintf(w, "Mesh: %s, %s, %s, condition estimate %s\n",
+		units.Count(sum.Mesh.Elements, "element"), units.Count(sum.Mesh.Nodes, "node"), sum.Mesh.Kinds, units.FormatG("%.2g", sum.Mesh.Condition))
 	fmt.Fprintln(w, "  "+analysis.MeshChoice(sum))
 }
 
@@ -735,10 +736,10 @@ func writeEquilibriumText(w io.Writer, tw *tabwriter.Writer, sum fem.Summary, u 
 	}
 	tw.Flush()
 	if sum.Exact {
-		fmt.Fprintf(w, "  largest residual relative to the loads: exact %.1e, FE %.1e\n", sum.Equilibrium.Relative, sum.FEEquilibrium.Relative)
+		fmt.Fprintf(w, "  largest residual relative to the loads: exact %s, FE %s\n", units.FormatG("%.1e", sum.Equilibrium.Relative), units.FormatG("%.1e", sum.FEEquilibrium.Relative))
 		return
 	}
-	fmt.Fprintf(w, "  largest residual relative to the loads: %.1e\n", sum.FEEquilibrium.Relative)
+	fmt.Fprintf(w, "  largest residual relative to the loads: %s\n", units.FormatG("%.1e", sum.FEEquilibrium.Relative))
 }
 
 // WriteErrorText writes the three error measures of the finite element

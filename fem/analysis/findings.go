@@ -185,9 +185,25 @@ func thermalFindings(m *fem.Model, u units.System) []Finding {
 			continue
 		}
 		out = append(out, segmentFinding(s, fmt.Sprintf("thermal expansion of segment %d", i+1),
-			fmt.Sprintf("Segment %d has no coefficient of thermal expansion α, so %s does nothing to it: enter α (typical values: steel 12e-6 /K, concrete 10e-6 /K, aluminium 23.6e-6 /K), or remove the temperature load.", i+1, strings.Join(loads, " and "))))
+			fmt.Sprintf("Segment %d has no coefficient of thermal expansion α, so %s does nothing to it: enter α (typical values: %s), or remove the temperature load.", i+1, strings.Join(loads, " and "), typicalExpansion(u))))
 	}
 	return out
+}
+
+// typicalExpansion lists in u the coefficients of thermal expansion of
+// typical steel, concrete and aluminium, those the material cautions
+// compare with (material.TypicalIn): "steel 1.200e-05 1/K, ...".
+func typicalExpansion(u units.System) string {
+	var said []string
+	for _, kind := range []string{"steel", "concrete", "aluminium"} {
+		for _, e := range material.TypicalIn(u) {
+			if e.Kind == kind {
+				said = append(said, kind+" "+u.Format(units.ThermalExpansion, e.Material.ThermalExpansion))
+				break
+			}
+		}
+	}
+	return strings.Join(said, ", ")
 }
 
 // selfWeightFindings is the caution that m gives gravity for self-weight
@@ -383,11 +399,11 @@ func (a *Analysis) coarseMesh() (Finding, bool) {
 	var others []string
 	for _, e := range sum.Extremes {
 		if e.Quantity != worst.Quantity && e.Accuracy > fem.MeshAccuracy {
-			others = append(others, fmt.Sprintf("%s %.3g %%", e.Quantity, 100*e.Accuracy))
+			others = append(others, fmt.Sprintf("%s %s", e.Quantity, units.FormatG("%.3g %%", 100*e.Accuracy)))
 		}
 	}
-	msg := fmt.Sprintf("FE and exact differ by %.3g %% of the largest %s at x = %s%s: the %s %s is %s at x = %s exactly, %s at x = %s in the finite element (FE) solution on this mesh. ",
-		100*worst.Accuracy, q.Name, u.Format(units.Position, at), words, which, q.Name,
+	msg := fmt.Sprintf("FE and exact differ by %s of the largest %s at x = %s%s: the %s %s is %s at x = %s exactly, %s at x = %s in the finite element (FE) solution on this mesh. ",
+		units.FormatG("%.3g %%", 100*worst.Accuracy), q.Name, u.Format(units.Position, at), words, which, q.Name,
 		u.Format(q.Unit, exact), u.Format(units.Position, at), u.Format(q.Unit, fe), u.Format(units.Position, feAt))
 	if len(others) > 0 {
 		msg += "Also beyond 0.5 %: " + strings.Join(others, ", ") + ". "
@@ -402,7 +418,7 @@ func (a *Analysis) coarseMesh() (Finding, bool) {
 	} else {
 		msg += "The mesh is set in the model: leave it to Stave (0 elements) for FE extremes within 0.5 % of the exact ones."
 	}
-	f := finding(CodeCoarseMesh, fmt.Sprintf("FE and exact differ by %.3g %% (%s)", 100*worst.Accuracy, q.Name), msg)
+	f := finding(CodeCoarseMesh, fmt.Sprintf("FE and exact differ by %s (%s)", units.FormatG("%.3g %%", 100*worst.Accuracy), q.Name), msg)
 	f.At, f.Located = at, true
 	return f, true
 }
@@ -529,8 +545,8 @@ func (a *Analysis) MeshText(u units.System) string {
 	s := a.Solution
 	e := s.Equilibrium
 	res := math.Max(math.Abs(e.Residual[0]), math.Abs(e.Residual[1]))
-	text := fmt.Sprintf("%s, %s · out of balance %s, %s · condition ≈ %.2g",
-		units.Count(len(s.Mesh.Elements), "element"), units.Count(len(s.Mesh.X), "node"), u.Format(units.Force, res), u.Format(units.Moment, math.Abs(e.Residual[2])), s.Condition)
+	text := fmt.Sprintf("%s, %s · out of balance %s, %s · condition ≈ %s",
+		units.Count(len(s.Mesh.Elements), "element"), units.Count(len(s.Mesh.X), "node"), u.Format(units.Force, res), u.Format(units.Moment, math.Abs(e.Residual[2])), units.FormatG("%.2g", s.Condition))
 	if a.summary != nil {
 		text += "\n" + MeshChoice(*a.summary)
 	}
@@ -552,8 +568,8 @@ func MeshChoice(sum fem.Summary) string {
 	if worst.Accuracy > fem.MeshAccuracy {
 		verdict = "beyond"
 	}
-	return fmt.Sprintf("The mesh is %s; its finite element extremes are up to %.3g %% of a field's largest magnitude from the exact ones (worst: %s), %s the default mesh's %.3g %%.",
-		who, 100*worst.Accuracy, worst.Quantity, verdict, 100*fem.MeshAccuracy)
+	return fmt.Sprintf("The mesh is %s; its finite element extremes are up to %s of a field's largest magnitude from the exact ones (worst: %s), %s the default mesh's %.3g %%.",
+		who, units.FormatG("%.3g %%", 100*worst.Accuracy), worst.Quantity, verdict, 100*fem.MeshAccuracy)
 }
 
 // headlineQuantities are the fields HeadlineText lists.

@@ -60,11 +60,51 @@ func TestMaterialFindingInDisplayUnits(t *testing.T) {
 		u    units.System
 		want string
 	}{
-		{units.USCustomary, "steel: E = 2.900e+07 ksi is 1000 times that of typical steel (29000 ksi). Did you type a value in psi where ksi is expected?"},
-		{units.SI, "steel: E = 199900 GPa is 1000 times that of typical steel (199.9 GPa). Did you type a value in MPa where GPa is expected?"},
+		{units.USCustomary, "steel: E = 2.900e+07 ksi is 1000 times that of typical steel (29000 ksi), the nearest typical material. Did you type a value in psi where ksi is expected?"},
+		// Compared in SI with EN 1993-1-1's 210 GPa, as every SI caution is.
+		{units.SI, "steel: E = 199900 GPa is 952 times that of typical steel (210.0 GPa), the nearest typical material. Did you type a value in MPa where GPa is expected?"},
 	} {
 		if all := messagesOf(materialFindingsIn(t, m, c.u), "material of segment 1"); !strings.Contains(all, c.want) {
 			t.Errorf("in %s the material caution is not %q:\n%s", c.u.Name, c.want, all)
+		}
+	}
+}
+
+// The caution on a temperature load without α quotes typical values in
+// the analysis' display units, each the one the material cautions compare
+// with (material.TypicalIn): steel's 6.5e-6 per °F of the AISC Manual in
+// US units, 12e-6 /K of EN 1993-1-1 §3.2.6 in SI, concrete's 10e-6 /K of
+// EN 1992-1-1 §3.1.3 (5.556e-6 per °F: a kelvin is 9/5 °F, NIST SP 811
+// (2008), Appendix B), all from memory. It read "steel 12e-6 /K" in US
+// units too.
+func TestThermalFindingQuotesTypicalValuesInDisplayUnits(t *testing.T) {
+	seg := fem.Segment{Start: 0, End: 3, Section: fem.Section{Area: 0.01, SecondMoment: 1e-4, FibreDistance: 0.1},
+		Material: fem.Material{Elastic: 210e9}} // no α: the caution
+	m := fem.Model{Segments: []fem.Segment{seg}, Supports: []fem.Support{{X: 0, Kind: fem.Fixed}},
+		PointLoads: []fem.PointLoad{{X: 3, Transverse: -1e4}}, TemperatureChange: 20}
+	for _, c := range []struct {
+		u         units.System
+		want, not []string
+	}{
+		{units.USCustomary, []string{"steel 6.500e-06 1/°F", "concrete 5.556e-06 1/°F"}, []string{"/K"}},
+		{units.SI, []string{"steel 1.200e-05 1/K", "concrete 1.000e-05 1/K"}, []string{"°F"}},
+	} {
+		opts := check.DefaultOptions()
+		opts.Units = c.u
+		a, err := Run(context.Background(), Request{Model: m, Checks: opts})
+		if err != nil {
+			t.Fatal(err)
+		}
+		all := messagesOf(a.Findings(), "thermal expansion of segment 1")
+		for _, w := range c.want {
+			if !strings.Contains(all, w) {
+				t.Errorf("in %s the caution lacks %q:\n%s", c.u.Name, w, all)
+			}
+		}
+		for _, w := range c.not {
+			if strings.Contains(all, w) {
+				t.Errorf("in %s the caution says %q:\n%s", c.u.Name, w, all)
+			}
 		}
 	}
 }

@@ -361,14 +361,15 @@ func (p *Probe) Join(later fem.Visitor) {
 
 // dropRoundOff zeroes the stresses and deflections of both solutions'
 // peaks that are round-off against the loads' scale
-// (fem.Solution.LoadScales): where the loads go straight into the supports
-// the member carries nothing, and 1e-13 Pa is no stress (nor a difference
-// of 100 % between two such values).
+// (fem.Solution.LoadScales), a stress against its own segment's: where the
+// loads go straight into the supports the member carries nothing, and
+// 1e-13 Pa is no stress (nor a difference of 100 % between two such
+// values).
 func (p *Probe) dropRoundOff() {
 	_, stress, displacement := p.solution.LoadScales()
 	for _, k := range []*peaks{&p.fe, &p.ex} {
 		for i := range k.stress {
-			if math.Abs(k.stress[i].value) <= negligible*stress {
+			if math.Abs(k.stress[i].value) <= negligible*stress[i] {
 				k.stress[i].value = 0
 			}
 		}
@@ -584,7 +585,7 @@ func (p *Probe) feBeside(o Options, k units.Kind, value float64, fe peak) string
 	}
 	diff := ""
 	if value != 0 {
-		diff = fmt.Sprintf(", %+.3g %%", 100*(fe.value-value)/value)
+		diff = ", " + units.FormatG("%+.3g %%", 100*(fe.value-value)/value)
 	}
 	return fmt.Sprintf("The finite element solution on this mesh gives %s at x = %s (FE − exact %s%s). ",
 		o.Units.Format(k, fe.value), o.Units.Format(units.Position, fe.x), o.Units.Format(k, fe.value-value), diff)
@@ -615,12 +616,13 @@ func LimitFigures(u units.System, k units.Kind, value, limit float64) int {
 // UtilisationText writes a utilisation (the checked value over its limit,
 // failing above 1) to two decimals, or to three figures from a million up,
 // where the decimals would run to hundreds of digits (a safety factor of
-// 1e300, say). A utilisation above 1 that two decimals round to 1.00 gets
-// as many more as show it above 1, so the text never reads "1.00" beside
-// a failed check.
+// 1e300, say), and in words beyond the range of floating-point numbers
+// (units.FormatG). A utilisation above 1 that two decimals round to 1.00
+// gets as many more as show it above 1, so the text never reads "1.00"
+// beside a failed check.
 func UtilisationText(u float64) string {
-	if math.Abs(u) >= 1e6 {
-		return fmt.Sprintf("%.3g", u)
+	if !(math.Abs(u) < 1e6) {
+		return units.FormatG("%.3g", u)
 	}
 	text := fmt.Sprintf("%.2f", u)
 	for decimals := 3; u > 1 && decimals <= 17; decimals++ {

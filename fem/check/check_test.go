@@ -1,6 +1,7 @@
 package check
 
 import (
+	"fmt"
 	"math"
 	"strings"
 	"testing"
@@ -557,6 +558,9 @@ func TestUtilisationTextKeepsTheSideOfOne(t *testing.T) {
 		{999999.994, "999999.99"},
 		{1e6, "1e+06"},
 		{1e300, "1e+300"},
+		// A limit that underflows (an allowable of 1e-5 Pa over a safety
+		// factor of 1e300) overflows the utilisation, which read "+Inf".
+		{math.Inf(1), "infinite"},
 	} {
 		if got := UtilisationText(c.u); got != c.want {
 			t.Errorf("UtilisationText(%v) = %q, want %q", c.u, got, c.want)
@@ -849,4 +853,72 @@ func bucklingOver(t *testing.T, name string, results []Result, span [2]float64) 
 	}
 	t.Errorf("%s: no buckling check of %v in %v", name, span, names(results))
 	return nil
+}
+
+// Each segment's stress is judged against its own section: a segment whose
+// section is absurdly weak (I = 8e-20 m⁴ beside 8e-6 m⁴) set the scale of
+// round-off for the whole member, and segment 1's combined stress of
+// 250 MPa read "0 MPa". A simply supported 4 m span under q = 10 kN/m has
+// M = qL²/8 = 20 kN·m at midspan whatever its sections (statics; beam
+// tables, from memory), so σ = M·c/I = 20e3 · 0.1 / 8e-6 = 250 MPa at
+// x = 2 m (flexure formula, Gere & Goodno, Mechanics of Materials). An
+// unloaded overhang carries no moment (statics), so its stress is zero.
+func TestStressOfEachSegmentAgainstItsOwnSection(t *testing.T) {
+	segment := func(a, b, I float64) fem.Segment {
+		return fem.Segment{Start: a, End: b, Section: fem.Section{Area: 0.004, SecondMoment: I, FibreDistance: 0.1},
+			Material: fem.Material{Name: "steel", Elastic: 200e9}}
+	}
+	for _, c := range []struct {
+		name string
+		segs []fem.Segment
+		want []float64
+	}{
+		// No exact solution (its equations are near-singular): the FE
+		// moment at x = 2 m is within 0.2 % of 20 kN·m; segment 2 reaches
+		// 20e3 · 0.1 / 8e-20 = 2.5e22 Pa there.
+		{"weak second half of the span", []fem.Segment{segment(0, 2, 8e-6), segment(2, 4, 8e-20)}, []float64{250e6, 2.5e22}},
+		{"weak unloaded overhang", []fem.Segment{segment(0, 4, 8e-6), segment(4, 5, 8e-20)}, []float64{250e6, 0}},
+	} {
+		m := fem.Model{Segments: c.segs,
+			Supports:        []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}},
+			DistributedLoad: []fem.DistributedLoad{uniform(-10e3, 0, 4)},
+			Mesh:            fem.MeshSettings{Elements: 8}}
+		s, err := fem.Solve(&m)
+		if err != nil {
+			t.Fatalf("%s: solve: %v", c.name, err)
+		}
+		e, _ := fem.SolveExact(&m) // nil where it cannot be found
+		for i, want := range c.want {
+			r := find(t, Run(&m, s, e, DefaultOptions()), fmt.Sprintf("Stress, segment %d", i+1))
+			if want == 0 && r.Value != 0 || want != 0 && !near(r.Value, want, 0.01) {
+				t.Errorf("%s: segment %d stress %g Pa at x = %g, want %g (σ = M·c/I)", c.name, i+1, r.Value, r.X, want)
+			}
+		}
+	}
+}
+
+// Values a check computes that overflow read in words, not as fmt writes
+// them ("+Inf", Go's fmt documentation, from memory): the beam of
+// TestHandComputedUtilisation (σ = 30 MPa) checked against an allowable of
+// 1e-5 Pa over a safety factor of 1e300 has a utilisation beyond the
+// floating-point range, "Utilisation +Inf"; a safety factor of 5e-324, the
+// least above zero, is read as a resistance factor whose inverse
+// overflows, "enter 1/φ = +Inf".
+func TestCheckMessagesSayOverflowInWords(t *testing.T) {
+	m := beam(4, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}}, 1e-5)
+	m.PointLoads = []fem.PointLoad{{X: 2, Transverse: -20e3}}
+	s, e := solveBoth(t, &m)
+	for _, c := range []struct {
+		allowable, factor float64
+		want              string
+	}{
+		{1e-5, 1e300, "Utilisation infinite"},
+		{30e6, 5e-324, "enter 1/φ = infinite"},
+	} {
+		m.Segments[0].Material.Allowable = c.allowable
+		r := find(t, Run(&m, s, e, Options{SafetyFactor: c.factor}), "Stress, segment 1")
+		if strings.Contains(r.Message, "Inf") || !strings.Contains(r.Message, c.want) {
+			t.Errorf("allowable %g Pa, safety factor %g: %q, want %q and no Inf", c.allowable, c.factor, r.Message, c.want)
+		}
+	}
 }

@@ -52,8 +52,8 @@ func stressChecks(p *Probe, o Options) []Result {
 			if r.Status == Pass {
 				r.Status = Warn
 			}
-			r.Message += fmt.Sprintf("A safety factor below 1 raises the limit above the allowable stress entered, which leaves less than no margin: if %.3g is a resistance factor φ that multiplies the strength, enter 1/φ = %.3g instead. ",
-				o.SafetyFactor, 1/o.SafetyFactor)
+			r.Message += fmt.Sprintf("A safety factor below 1 raises the limit above the allowable stress entered, which leaves less than no margin: if %.3g is a resistance factor φ that multiplies the strength, enter 1/φ = %s instead. ",
+				o.SafetyFactor, units.FormatG("%.3g", 1/o.SafetyFactor))
 		}
 		if o.SafetyFactor == 1 {
 			r.Message += "With a safety factor of 1 there is no margin in this check: the value entered must already be an allowable (design) stress, not a yield or characteristic strength. "

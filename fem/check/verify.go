@@ -103,8 +103,8 @@ func exactCheck(p *Probe, o Options) Result {
 	if r.Value > r.Limit {
 		r.Status = Warn
 	}
-	r.Message = fmt.Sprintf("The finite element stresses differ from the exact ones by at most %.3g %% of the largest stress (worst near x = %s); the %s is %.3g %%. ",
-		100*r.Value, o.Units.Format(units.Position, r.X), fem.EnergyErrorName, 100*norms.RelativeEnergy)
+	r.Message = fmt.Sprintf("The finite element stresses differ from the exact ones by at most %s of the largest stress (worst near x = %s); the %s is %s. ",
+		units.FormatG("%.3g %%", 100*r.Value), o.Units.Format(units.Position, r.X), fem.EnergyErrorName, units.FormatG("%.3g %%", 100*norms.RelativeEnergy))
 	if r.Status == Warn {
 		r.Message += fmt.Sprintf("That is more than %.3g %%: the headline values are the exact ones, but the finite element diagrams and values are off by that much; use more elements, or leave the mesh to Stave.", 100*r.Limit)
 	} else {
@@ -142,8 +142,8 @@ func handbookCheck(m *fem.Model, s *fem.Solution, e *fem.Exact, o Options) []Res
 		if difference > o.HandbookTolerance {
 			r.Status = Warn
 		}
-		r.Message = fmt.Sprintf("%s: %s gives %s, the handbook %s (%s; %s), a difference of %.3g %%.",
-			c.Name, who, o.Units.Format(q.Kind, r.Value), o.Units.Format(q.Kind, q.Value), c.Formula, c.Source, 100*difference)
+		r.Message = fmt.Sprintf("%s: %s gives %s, the handbook %s (%s; %s), a difference of %s.",
+			c.Name, who, o.Units.Format(q.Kind, r.Value), o.Units.Format(q.Kind, q.Value), c.Formula, c.Source, units.FormatG("%.3g %%", 100*difference))
 		if r.Exact {
 			r.Message += fmt.Sprintf(" The finite element solution on this mesh gives %s.", o.Units.Format(q.Kind, fe))
 		}

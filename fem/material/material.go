@@ -28,6 +28,10 @@ type Entry struct {
 	Kind     string       // steel, aluminium, timber, concrete
 	Strength string       // what the strength value is, in plain words
 	Source   string       // where the values come from
+	// Units is the display units (units.System.Name, "SI" or "US") whose
+	// cautions quote this entry where its kind has one for each, as steel
+	// has; "" where it is its kind's only entry (TypicalIn).
+	Units string
 }
 
 // Typical returns the list of typical materials, a fresh copy each call.
@@ -40,12 +44,14 @@ func Typical() []Entry {
 			Kind:     "steel",
 			Strength: "yield strength fy for thickness up to 40 mm; not an allowable stress",
 			Source:   "EN 1993-1-1 §3.2.6 (E, α, ρ = 7850 kg/m³) and Table 3.1 (fy); from memory",
+			Units:    units.SI.Name,
 		},
 		{
 			Material: fem.Material{Name: "Structural steel ASTM A992 (typical)", Elastic: 29000 * ksi, Density: 490 * lbft3, ThermalExpansion: 6.5e-6 * perF, Allowable: 50 * ksi},
 			Kind:     "steel",
 			Strength: "minimum yield stress Fy = 50 ksi; not an allowable stress",
 			Source:   "AISC Specification (E = 29,000 ksi), AISC Manual (490 lb/ft³, 6.5e-6 per °F), ASTM A992 (Fy); from memory",
+			Units:    units.USCustomary.Name,
 		},
 		{
 			Material: fem.Material{Name: "Aluminium alloy 6061-T6 (typical)", Elastic: 68.9e9, Density: 2700, ThermalExpansion: 23.6e-6, Allowable: 276e6},
@@ -66,6 +72,19 @@ func Typical() []Entry {
 			Source:   "EN 1992-1-1 Table 3.1 (Ecm, fck) and §3.1.3 (α); density common practice for plain concrete (EN 1991-1-1 Table A.1 gives a unit weight of 24 kN/m³, about 2450 kg/m³); from memory",
 		},
 	}
+}
+
+// TypicalIn is the list of typical materials the cautions of a user of u
+// compare with: of a kind with an entry for each display units, the one
+// of u, so that every caution quotes one steel — the AISC Specification's
+// E = 29,000 ksi in US units, EN 1993-1-1's 210 GPa otherwise (a file's
+// SI base units too).
+func TypicalIn(u units.System) []Entry {
+	own := units.SI.Name
+	if u.Name == units.USCustomary.Name {
+		own = u.Name
+	}
+	return slices.DeleteFunc(Typical(), func(e Entry) bool { return e.Units != "" && e.Units != own })
 }
 
 // farFactor is how far (as a ratio either way) a value may be from a
@@ -102,37 +121,32 @@ func (s slip) saying(hint string) slip {
 	return s
 }
 
-// fields are the units of the fields a value is typed in, as seen by
-// someone using u: u's units of kinds, its own field's first, then a
-// file's SI base unit, which every model is saved in and may be written
-// by hand in; each once.
-func fields(u units.System, kinds ...units.Kind) []units.Unit {
-	var out []units.Unit
-	for _, q := range kinds {
-		out = append(out, u.Unit(q))
+// fields are the units of the fields a value of kind q is typed in, as
+// seen by someone using u: u's own, then a file's SI base unit, which
+// every model is saved in and may be written by hand in; each once.
+func fields(u units.System, q units.Kind) []units.Unit {
+	own, file := u.Unit(q), units.Base.Unit(q)
+	if own == file {
+		return []units.Unit{own}
 	}
-	out = append(out, units.Base.Unit(kinds[0]))
-	var once []units.Unit
-	for _, f := range out {
-		if !slices.Contains(once, f) {
-			once = append(once, f)
-		}
-	}
-	return once
+	return []units.Unit{own, file}
 }
 
-// modulusSlips are the slips of E typed in MPa, GPa, Pa, ksi or psi into
-// a field of u (GPa or ksi), in u's unit of stress (MPa in SI: EN 1993-1-1
-// quotes E = 210 000 N/mm², from memory), or in a file (Pa). Two slips of
-// one ratio (psi for MPa and ksi for GPa, both 145.04) are named once, by
+// modulusSlips are the slips of E typed in MPa (EN 1993-1-1 quotes E =
+// 210 000 N/mm², from memory), GPa, Pa, ksi, psi or kPa (a set of units
+// of kN and m writes E in kN/m², 2e8 for steel; common practice) into the
+// E field of u (GPa or ksi) or of a file (Pa). No E field takes MPa, the
+// unit of u's other stresses. Two slips of one ratio are named once, by
 // the first.
 func modulusSlips(u units.System) []slip {
 	typed := []units.Unit{units.SI.Unit(units.Stress), units.SI.Unit(units.Modulus), units.Base.Unit(units.Modulus), units.USCustomary.Unit(units.Modulus)}
-	if psi, ok := units.Lookup(units.Modulus, "psi"); ok {
-		typed = append(typed, psi)
+	for _, symbol := range []string{"psi", "kPa"} {
+		if t, ok := units.Lookup(units.Stress, symbol); ok {
+			typed = append(typed, t)
+		}
 	}
 	var out []slip
-	for _, expected := range fields(u, units.Modulus, units.Stress) {
+	for _, expected := range fields(u, units.Modulus) {
 		for _, t := range typed {
 			if t == expected || slices.ContainsFunc(out, func(s slip) bool { return sameRatio(s.ratio, expected.ToSI/t.ToSI) }) {
 				continue
@@ -192,7 +206,7 @@ func FarFromTypicalIn(m fem.Material, u units.System) []string {
 	if u.Name == "" {
 		u = units.Base
 	}
-	typical := Typical()
+	typical := TypicalIn(u)
 	elastic := property{"E", func(e Entry) float64 { return e.Material.Elastic }, func(v float64) string { return u.Format(units.Modulus, v) }}
 	density := property{"density", func(e Entry) float64 { return e.Material.Density }, func(v float64) string { return u.Format(units.Density, v) }}
 	if !(m.Elastic > 0) || math.IsInf(m.Elastic, 0) {

@@ -112,7 +112,13 @@ func TestFarFromTypicalIn(t *testing.T) {
 		// A file holds kg/m³: a unit weight of 78.5 kN/m³ typed there, seen in a US window.
 		{"US: unit weight typed in a file", us, with(29000*ksi, 78.5), []string{"density = 4.901 lb/ft³", "unit weight in kN/m³ where kg/m³ is expected"}, nil},
 		{"US: negative density", us, with(29000*ksi, -1*pcf), []string{"density = -1.000 lb/ft³ must be a finite number"}, nil},
-		{"US: zero modulus", us, with(0, 490*pcf), []string{"E = 0 ksi", "must be a positive number", "about 30000 ksi"}, []string{"Pa"}},
+		// Every caution quotes the steel of the AISC Specification, E = 29,000
+		// ksi (ASTM A992; from memory): it read "about 30000 ksi", EN 1993-1-1's
+		// 210 GPa in ksi, beside "typical steel (29000 ksi)".
+		{"US: zero modulus", us, with(0, 490*pcf), []string{"E = 0 ksi", "must be a positive number", "about 29000 ksi"}, []string{"Pa", "30000"}},
+		// 105,000 ksi is nearer EN's 210 GPa (30,458 ksi) than A992's E; it read
+		// "3.28 times that of typical steel (30460 ksi)".
+		{"US: far above steel", us, with(105000*ksi, 490*pcf), []string{"3.62 times that of typical steel (29000 ksi)"}, []string{"30460"}},
 
 		{"SI: MPa typed in the GPa field", si, with(210000e9, 7850),
 			[]string{"E = 210000 GPa is 1000 times that of typical steel (210.0 GPa)", "MPa where GPa"}, []string{"ksi", "e+14"}},
@@ -131,7 +137,19 @@ func TestFarFromTypicalIn(t *testing.T) {
 		// of steel beside it gives the mistake away.
 		{"SI: ksi typed in an MPa field", si, with(29000e6, 7850), []string{"3.27 times that of typical concrete", "same material"}, nil},
 		{"SI: a plastic, soft, no slip to name", si, with(3e9, 1200), []string{"E = 3.000 GPa is 1/3.67 of that of typical timber (11.00 GPa)", "If your material really is"}, []string{"Did you"}},
-		{"SI: zero modulus", si, with(0, 7850), []string{"E = 0 GPa", "must be a positive number"}, nil},
+		// EN 1993-1-1 §3.2.6 gives E = 210 000 N/mm² (from memory).
+		{"SI: zero modulus", si, with(0, 7850), []string{"E = 0 GPa", "must be a positive number", "about 210 GPa"}, nil},
+		// 200,000 (MPa) typed in the GPa field: compared with EN's steel, as
+		// every SI caution is, not A992's 199.9 GPa.
+		{"SI: MPa typed in the GPa field, 200 GPa meant", si, with(200000e9, 7850),
+			[]string{"E = 200000 GPa is 952 times that of typical steel (210.0 GPa)", "MPa where GPa"}, []string{"199.9"}},
+		// No E field takes MPa: the window's takes GPa, a file's Pa. E = 0.2
+		// GPa is what 200 GPa written in kPa (2e8 kN/m², as a kN–m set of
+		// units writes it; common practice) gives in a file; it read "Did you
+		// type a value in GPa where MPa is expected?".
+		{"SI: kPa written in a file", si, with(2e8, 7850), []string{"E = 0.2000 GPa", "kPa where Pa is expected", "1 kPa is 1000 Pa"}, []string{"where MPa"}},
+		// 2e8 (kPa) typed in the GPa field; it read "Pa where MPa is expected".
+		{"SI: kPa typed in the GPa field", si, with(2e17, 7850), []string{"kPa where GPa is expected"}, []string{"where MPa"}},
 		{"SI: negative density", si, with(210e9, -1), []string{"density = -1.000 kg/m³ must be a finite number, not negative"}, nil},
 
 		// A ratio of 10⁹ in e-notation, as times() says and as the values
@@ -208,10 +226,10 @@ func TestSlipRatios(t *testing.T) {
 		{si, "MPa", "GPa", 1e3},
 		{si, "Pa", "GPa", 1e9},
 		{si, "ksi", "GPa", 1e9 / ksi},
-		{si, "ksi", "MPa", 1e6 / ksi},
-		{si, "GPa", "MPa", 1e-3},
-		{si, "Pa", "MPa", 1e6},
+		{si, "kPa", "GPa", 1e6},
 		{si, "MPa", "Pa", 1e-6},
+		{si, "kPa", "Pa", 1e-3},
+		{us, "kPa", "ksi", ksi / 1e3},
 		{si, "GPa", "Pa", 1e-9},
 		// A unit weight in kN/m³ is a density of 1000/gₙ kg/m³ (standard gravity, exact).
 		{si, "kN/m³", "kg/m³", gn / 1000},
@@ -236,11 +254,12 @@ func TestSlipRatios(t *testing.T) {
 			t.Errorf("%s: %s typed where %s is expected: ratio %.17g, want %.17g", c.units.Name, c.typed, c.expected, got, c.want)
 		}
 	}
-	// A ksi field takes no unit weights in SI units, nor an SI window a ksi slip.
+	// A ksi field takes no unit weights in SI units, nor an SI window a ksi
+	// slip, and no E field takes MPa (the window's takes GPa, a file's Pa).
 	for _, c := range []struct {
 		units           units.System
 		typed, expected string
-	}{{us, "kN/m³", "lb/ft³"}, {si, "MPa", "ksi"}, {base, "MPa", "GPa"}} {
+	}{{us, "kN/m³", "lb/ft³"}, {si, "MPa", "ksi"}, {base, "MPa", "GPa"}, {si, "GPa", "MPa"}, {si, "Pa", "MPa"}, {si, "ksi", "MPa"}} {
 		for _, s := range append(modulusSlips(c.units), densitySlips(c.units)...) {
 			if s.typed == c.typed && s.expected == c.expected {
 				t.Errorf("%s: slip %s typed where %s is expected, which no field of these units expects", c.units.Name, c.typed, c.expected)

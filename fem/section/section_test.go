@@ -105,7 +105,8 @@ func TestInvalidDimensions(t *testing.T) {
 	}{
 		{"zero width", func() (Properties, error) { return Rectangle(0, 0.3) }, "rectangle: width b = 0 mm must be a positive"},
 		{"negative diameter", func() (Properties, error) { return SolidRound(-0.02) }, "diameter d = -20.00 mm"},
-		{"NaN depth", func() (Properties, error) { return Rectangle(0.1, math.NaN()) }, "depth h = NaN mm"},
+		// A value that is not a number reads in words (units.FormatNumber).
+		{"NaN depth", func() (Properties, error) { return Rectangle(0.1, math.NaN()) }, "depth h = undefined mm"},
 		{"tube wall too thick", func() (Properties, error) { return RoundTube(0.1, 0.06) },
 			"wall thickness t = 60.00 mm is at least half the outside diameter D = 100.0 mm"},
 		{"box wall too thick", func() (Properties, error) { return RectangularHollow(0.1, 0.2, 0.05) },

@@ -337,10 +337,10 @@ func AgainstUniform(ctx context.Context, m *fem.Model, target float64, maxElemen
 			break
 		}
 		if e <= roundOffOf(cond) {
-			return v, fmt.Errorf("uniform refinement reached its round-off, an error of %.3g on %d elements (condition estimate %.2g), before the adaptive error %.3g", e, count, cond, v.AdaptiveTrue)
+			return v, fmt.Errorf("uniform refinement reached its round-off, an error of %s on %d elements (condition estimate %s), before the adaptive error %s", units.FormatG("%.3g", e), count, units.FormatG("%.2g", cond), units.FormatG("%.3g", v.AdaptiveTrue))
 		}
 		if count > maxUniform {
-			return v, fmt.Errorf("uniform refinement did not reach the adaptive error %.3g within %d elements (%.3g at %d)", v.AdaptiveTrue, maxUniform, e, count)
+			return v, fmt.Errorf("uniform refinement did not reach the adaptive error %s within %d elements (%s at %d)", units.FormatG("%.3g", v.AdaptiveTrue), maxUniform, units.FormatG("%.3g", e), count)
 		}
 		low, high = high, 2*high
 	}

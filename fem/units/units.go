@@ -322,16 +322,45 @@ func Count(n int, noun string) string {
 }
 
 // FormatNumber writes v with four significant figures, in fixed notation
-// between 0.001 and 10⁶ and in exponent notation outside.
+// between 0.001 and 10⁶ and in exponent notation outside; a value that is
+// not a finite number in words (notFinite).
 func FormatNumber(v float64) string { return FormatNumberFigures(v, significantFigures) }
+
+// FormatG writes v as fmt.Sprintf(format, v) does, format holding one verb
+// of the %e, %f or %g family with its flags ("%.3g", "%+.3g %%", "%.0e"),
+// and a value that is not a finite number in words (notFinite), the whole
+// of what it writes: a message reads "condition number infinite", not
+// "+Inf".
+func FormatG(format string, v float64) string {
+	if w, ok := notFinite(v); ok {
+		return w
+	}
+	return fmt.Sprintf(format, v)
+}
+
+// notFinite is v in words where it is not a finite number, which fmt and
+// strconv write "+Inf", "-Inf" and "NaN", a reader may not know: an
+// overflow is infinite, and a NaN (0/0, ∞ − ∞) has no value, undefined.
+func notFinite(v float64) (string, bool) {
+	switch {
+	case math.IsInf(v, 1):
+		return "infinite", true
+	case math.IsInf(v, -1):
+		return "minus infinite", true
+	case math.IsNaN(v):
+		return "undefined", true
+	}
+	return "", false
+}
 
 // FormatNumberFigures is FormatNumber with the given number of significant
 // figures (at least 1).
 func FormatNumberFigures(v float64, figures int) string {
 	figures = max(figures, 1)
+	if w, ok := notFinite(v); ok {
+		return w
+	}
 	switch {
-	case math.IsNaN(v) || math.IsInf(v, 0):
-		return strconv.FormatFloat(v, 'g', -1, 64)
 	case v == 0:
 		return "0"
 	}

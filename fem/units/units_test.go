@@ -646,3 +646,31 @@ func TestLookup(t *testing.T) {
 		}
 	}
 }
+
+// FormatG writes a finite value as fmt does and one that is not finite in
+// words, where fmt writes "+Inf", "-Inf" or "NaN" (Go's fmt package
+// documentation, from memory): a condition number of a singular system
+// read "condition number +Inf after scaling".
+func TestFormatG(t *testing.T) {
+	for _, c := range []struct {
+		format string
+		v      float64
+		want   string
+	}{
+		{"%.3g", 1.23456e13, "1.23e+13"},
+		{"%.2g", 0.5, "0.5"},
+		{"%+.3g %%", -2.5, "-2.5 %"},
+		{"%.0e", 1e-3, "1e-03"},
+		{"%.3g", math.Inf(1), "infinite"},
+		{"%.3g %%", math.Inf(-1), "minus infinite"},
+		{"%.2g", math.NaN(), "undefined"},
+	} {
+		if got := FormatG(c.format, c.v); got != c.want {
+			t.Errorf("FormatG(%q, %g) = %q, want %q", c.format, c.v, got, c.want)
+		}
+	}
+	// The display units say it alike: a limit that overflowed read "+Inf MPa".
+	if got := SI.Format(Stress, math.Inf(1)); got != "infinite MPa" {
+		t.Errorf("an infinite stress reads %q, want %q", got, "infinite MPa")
+	}
+}

@@ -11,6 +11,7 @@ import (
 	"stave/fem"
 	"stave/fem/analysis"
 	"stave/fem/check"
+	"stave/fem/units"
 	"stave/storage"
 )
 
@@ -66,7 +67,7 @@ type Accuracy struct {
 
 // text is the accuracy in words: "0.25 % (shear force)".
 func (a *Accuracy) text() string {
-	return fmt.Sprintf("%.3g %% (%s)", 100*a.Ratio, a.Quantity)
+	return fmt.Sprintf("%s (%s)", units.FormatG("%.3g %%", 100*a.Ratio), a.Quantity)
 }
 
 // Ratio is n in span/n: +Inf when the span does not deflect, null in JSON.
