@@ -696,13 +696,31 @@ func zeroRoundOff(qs []QuantityEnvelope, sets []*Solution) {
 // deflection check measured from such a line (through the span's ends
 // where its supports settle) finds its worst arrangement: the shares'
 // deflections are taken as they are.
+//
+// It walks the shares combination c takes alone, and the key points of
+// their exact solutions alone: the checks ask it for every combination,
+// and a walk over the shares of every case placed by span (and between
+// the key points of them all) made a model of 300 combinations walk each
+// share 300 times.
 func (cs *CombinationSolutions) Within(c int, from, to float64, chord [2]float64) []QuantityEnvelope {
+	tolerances := cs.shareTolerances()
 	one := &CombinationSolutions{
 		Loads: &CombinationLoads{Combinations: cs.Loads.Combinations[c : c+1], Spans: cs.Loads.Spans,
-			Fixed: cs.Loads.Fixed[c : c+1], Shares: cs.Loads.Shares, ShareLoads: cs.Loads.ShareLoads, Factors: cs.Loads.Factors[c : c+1]},
-		Fixed: cs.Fixed[c : c+1], Shares: cs.Shares, tolerances: cs.tolerances}
+			Fixed: cs.Loads.Fixed[c : c+1], Factors: [][]float64{nil}},
+		Fixed: cs.Fixed[c : c+1], tolerances: [][envelopeValues]float64{}}
 	if cs.FixedExact != nil {
-		one.FixedExact, one.SharesExact = cs.FixedExact[c:c+1], cs.SharesExact
+		one.FixedExact = cs.FixedExact[c : c+1]
+	}
+	for j, f := range cs.Loads.Factors[c] {
+		if f == 0 {
+			continue
+		}
+		l := one.Loads
+		l.Shares, l.ShareLoads, l.Factors[0] = append(l.Shares, cs.Loads.Shares[j]), append(l.ShareLoads, cs.Loads.ShareLoads[j]), append(l.Factors[0], f)
+		one.Shares, one.tolerances = append(one.Shares, cs.Shares[j]), append(one.tolerances, tolerances[j])
+		if cs.FixedExact != nil {
+			one.SharesExact = append(one.SharesExact, cs.SharesExact[j])
+		}
 	}
 	w := newEnvelopeWalk(one)
 	w.chord = func(x float64) float64 { return chord[0] + (chord[1]-chord[0])*(x-from)/(to-from) }
