@@ -3,7 +3,6 @@ package report
 import (
 	"fmt"
 	"io"
-	"math"
 	"slices"
 	"strings"
 	"text/tabwriter"
@@ -192,7 +191,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 	for k, cb := range c.Combinations {
 		cj := CombinationJSON{Name: cb.Name, Kind: cb.Kind.String(), Label: cb.Label}
 		for _, f := range cb.Factors {
-			cj.Factors = append(cj.Factors, FactorJSON{Case: m.LoadSetName(f.Case), Factor: f.Factor})
+			cj.Factors = append(cj.Factors, FactorJSON{Case: m.LoadSetName(f.Case), Factor: plainZero(f.Factor)})
 		}
 		if k < len(c.Summaries) && c.Summaries[k] != nil {
 			cj.Results = resultsOf(*c.Summaries[k])
@@ -281,12 +280,13 @@ func (g GoverningJSON) Arrangement(u units.System) string {
 }
 
 // FactorsText is a combination's factors in words: "1.35 × permanent + 1.5 × imposed".
-// A negative factor is subtracted: "1 × permanent − 0.5 × wind".
+// A negative factor is subtracted: "1 × permanent − 0.5 × wind"; a factor
+// of 0, −0 too, is a term "+ 0 × snow".
 func FactorsText(c CombinationJSON) string {
 	var b strings.Builder
 	for i, f := range c.Factors {
-		sign, factor := "+", f.Factor
-		if math.Signbit(factor) {
+		sign, factor := "+", plainZero(f.Factor)
+		if factor < 0 {
 			sign, factor = "−", -factor
 		}
 		switch {
@@ -302,6 +302,15 @@ func FactorsText(c CombinationJSON) string {
 		}
 	}
 	return b.String()
+}
+
+// plainZero is f with a zero of either sign as 0: a file may write a
+// factor "-0", which is no subtraction and reads "-0" in a document.
+func plainZero(f float64) float64 {
+	if f == 0 {
+		return 0
+	}
+	return f
 }
 
 // WithTrains adds to r what CasesResults, reading the analysis alone,
@@ -329,7 +338,7 @@ func (r *CasesJSON) addTrainFactors(m *fem.Model, trains []moving.Train) {
 			}
 			for _, tf := range cb.Trains {
 				if tf.Train >= 0 && tf.Train < len(trains) {
-					c.Factors = append(c.Factors, FactorJSON{Train: trains[tf.Train].Name, Factor: tf.Factor})
+					c.Factors = append(c.Factors, FactorJSON{Train: trains[tf.Train].Name, Factor: plainZero(tf.Factor)})
 				}
 			}
 		}

@@ -113,10 +113,55 @@ func TestFactorsText(t *testing.T) {
 		{[]FactorJSON{{Case: "permanent", Factor: 1.35}, {Case: "imposed", Factor: 1.5}}, "1.35 × permanent + 1.5 × imposed"},
 		{[]FactorJSON{{Case: "permanent", Factor: 1}, {Case: "wind", Factor: -0.5}, {Train: "cart", Factor: 1.5}}, `1 × permanent − 0.5 × wind + 1.5 × train "cart"`},
 		{[]FactorJSON{{Case: "uplift", Factor: -1}, {Case: "permanent", Factor: 0}}, "−1 × uplift + 0 × permanent"},
+		// A factor of −0 (a file may write "-0") is a plain 0 term, first or later.
+		{[]FactorJSON{{Case: "permanent", Factor: 1.35}, {Case: "imposed", Factor: math.Copysign(0, -1)}}, "1.35 × permanent + 0 × imposed"},
+		{[]FactorJSON{{Case: "permanent", Factor: math.Copysign(0, -1)}, {Case: "imposed", Factor: 1}}, "0 × permanent + 1 × imposed"},
 	} {
 		if got := FactorsText(CombinationJSON{Factors: c.factors}); got != c.want {
 			t.Errorf("got %q, want %q", got, c.want)
 		}
+	}
+}
+
+// A factor written "-0" in the file, of a case or of a moving load train,
+// is 0 in the results document as in the text: "factor": 0, not -0, and
+// "+ 0 × imposed", not "− 0 × imposed".
+func TestNegativeZeroFactorIsPlainZero(t *testing.T) {
+	p, err := storage.Load("../../testdata/three_span_pattern.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	negativeZero := math.Copysign(0, -1)
+	p.Model.Combinations[0].Factors[1].Factor = negativeZero
+	p.Trains = []moving.Train{{Name: "trolley", Axles: []moving.Axle{{Load: 12e3}}, Step: 0.5}}
+	p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 0, Factor: negativeZero}}
+	src, err := Analyse(context.Background(), p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := CasesResults(src.Analysis)
+	if err != nil {
+		t.Fatal(err)
+	}
+	trains := r.WithTrains(src)
+	factors := map[string]float64{}
+	for _, f := range r.Combinations[0].Factors {
+		factors[f.Case+f.Train] = f.Factor
+	}
+	for _, tr := range TrainsJSON(&p.Model, trains, false) {
+		for _, c := range tr.Combinations {
+			factors[tr.Train+" in "+c.Combination] = c.Factor
+		}
+	}
+	for _, name := range []string{"imposed", "trolley", "trolley in strength"} {
+		if f, ok := factors[name]; !ok || f != 0 || math.Signbit(f) {
+			t.Errorf("factor of %s: %g (found %v, sign bit %v), want 0", name, f, ok, math.Signbit(f))
+		}
+	}
+	var text bytes.Buffer
+	WriteCasesText(&text, "three_span_pattern.json", r, units.SI)
+	if !strings.Contains(text.String(), `1.35 × permanent + 0 × imposed + 0 × train "trolley"`) {
+		t.Errorf("the text does not give the factors as a plain 0:\n%s", text.String())
 	}
 }
 
