@@ -369,6 +369,17 @@ func (r *CasesJSON) addTrainExtremes(m *fem.Model, trains []TrainResult) {
 	unstressedAlong := axial != nil && axial.Max.Value == 0 && axial.Min.Value == 0
 	for _, tr := range trains {
 		for _, c := range tr.Combinations {
+			// beyond reports whether v, of this combination with its
+			// train, takes the place of g as the largest (upper) or the
+			// smallest: a tie goes to the first combination in the
+			// file, and within one to its cases alone (fem.Supersedes).
+			beyond := func(v float64, g *GoverningJSON, upper bool) bool {
+				first := c.index < slices.IndexFunc(m.Combinations, func(cb fem.Combination) bool { return cb.Name == g.Combination })
+				if upper {
+					return fem.Supersedes(v, g.Value, 0, first)
+				}
+				return fem.Supersedes(-v, -g.Value, 0, first)
+			}
 			// upper says the extreme is a largest value, whose cases'
 			// arrangement is the one that raises q there.
 			governing := func(g fem.Governing, e TrainExtreme) GoverningJSON {
@@ -379,10 +390,10 @@ func (r *CasesJSON) addTrainExtremes(m *fem.Model, trains []TrainResult) {
 			}
 			for _, w := range c.Worst {
 				if q := envelope(w.Quantity); q != nil {
-					if w.Largest.Value > q.Max.Value {
+					if beyond(w.Largest.Value, &q.Max, true) {
 						q.Max = governing(c.Loaded(w.Quantity, w.Largest.X, true), w.Largest)
 					}
-					if w.Smallest.Value < q.Min.Value {
+					if beyond(w.Smallest.Value, &q.Min, false) {
 						q.Min = governing(c.Loaded(w.Quantity, w.Smallest.X, false), w.Smallest)
 					}
 				}
@@ -393,10 +404,10 @@ func (r *CasesJSON) addTrainExtremes(m *fem.Model, trains []TrainResult) {
 						worse.Value = -worse.Value
 					}
 					loaded := c.Loaded(w.Quantity, worse.X, upper)
-					if worse.Value > q.Max.Value {
+					if beyond(worse.Value, &q.Max, true) {
 						q.Max = governing(loaded, worse)
 					}
-					if worse.Value > -q.Min.Value {
+					if beyond(-worse.Value, &q.Min, false) {
 						q.Min = governing(loaded, worse)
 						q.Min.Value = -worse.Value
 					}
@@ -411,10 +422,10 @@ func (r *CasesJSON) addTrainExtremes(m *fem.Model, trains []TrainResult) {
 					}
 					x := m.Supports[re.Support].X
 					lo, hi := c.solutions.ArrangedReaction(c.index, re.Support, re.Motion)
-					if g := env.Max[name]; g != nil && re.Max > g.Value {
+					if g := env.Max[name]; g != nil && beyond(re.Max, g, true) {
 						*g = governing(hi, TrainExtreme{Value: re.Max, X: x, Front: re.MaxAt.Front, Direction: re.MaxAt.Direction.String()})
 					}
-					if g := env.Min[name]; g != nil && re.Min < g.Value {
+					if g := env.Min[name]; g != nil && beyond(re.Min, g, false) {
 						*g = governing(lo, TrainExtreme{Value: re.Min, X: x, Front: re.MinAt.Front, Direction: re.MinAt.Direction.String()})
 					}
 				}
