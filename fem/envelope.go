@@ -329,6 +329,12 @@ type Governing struct {
 	X, Value    float64 // m, SI
 	Combination int     // index into CombinationLoads.Combinations
 	Loaded      []Share
+	// Side is the side of X that Value is read on where the field of the
+	// combination and arrangement jumps at X, a key point of the member
+	// (the shear force at a support or under a point force, the moment
+	// under a couple): Left for the limit just left of X. It is 0 where
+	// the field does not jump, and for reactions and foundations.
+	Side Side
 }
 
 // QuantityEnvelope is the largest and smallest value of one quantity over
@@ -692,7 +698,74 @@ func (cs *CombinationSolutions) Envelope() *Envelope {
 	}
 	qs := w.quantities()
 	zeroRoundOff(qs, slices.Concat(cs.Fixed, cs.Shares))
+	cs.readSides(qs, w.exact)
 	return &Envelope{Exact: w.exact, Quantities: qs, Reactions: cs.reactionEnvelope(), Foundations: cs.foundationEnvelope()}
+}
+
+// readSides sets the Side of each extreme of qs that lies at a key point
+// of the member where the field of its combination and arrangement jumps
+// by more than round-off of the field's size (negligible): the side whose
+// limit, in the solutions the envelope is of (the exact ones when exact is
+// true), is nearer the extreme's value. Whether the field jumps is read
+// from the exact solutions where there are any: a finite element field
+// also jumps between elements, by the mesh's error, where no side is
+// given.
+func (cs *CombinationSolutions) readSides(qs []QuantityEnvelope, exact bool) {
+	keys := cs.Loads.Fixed[0].Keys
+	tol := mergeTolerance * cs.Fixed[0].Model.Length()
+	for i := range qs {
+		q := &qs[i]
+		size := max(math.Abs(q.Max.Value), math.Abs(q.Min.Value))
+		for _, g := range [2]*Governing{&q.Max, &q.Min} {
+			k, _ := slices.BinarySearch(keys, g.X)
+			if !(k < len(keys) && keys[k]-g.X <= tol || k > 0 && g.X-keys[k-1] <= tol) {
+				continue
+			}
+			upper := g == &q.Max
+			read := cs.FixedExact != nil
+			if left, right := cs.arrangedValue(g, q.Quantity, Left, read, upper), cs.arrangedValue(g, q.Quantity, Right, read, upper); math.Abs(left-right) <= negligible*size {
+				continue
+			}
+			switch left, right := cs.arrangedValue(g, q.Quantity, Left, exact, upper), cs.arrangedValue(g, q.Quantity, Right, exact, upper); {
+			case math.Abs(left-g.Value) < math.Abs(right-g.Value):
+				g.Side = Left
+			default:
+				g.Side = Right
+			}
+		}
+	}
+}
+
+// arrangedValue is quantity q at g.X, read on side, of g's combination
+// with the span shares g loads: of the exact solutions when exact is
+// true. Of the combined stress it is the larger of the fibres' (upper)
+// or the smaller.
+func (cs *CombinationSolutions) arrangedValue(g *Governing, q Quantity, side Side, exact bool, upper bool) float64 {
+	at := func(fe *Solution, ex []*Exact, k int) [envelopeValues]float64 {
+		var f Fields
+		if exact {
+			f = ex[k].At(g.X, side)
+		} else {
+			f = fe.At(g.X, side)
+		}
+		return sampleValues(&f)
+	}
+	v := at(cs.Fixed[g.Combination], cs.FixedExact, g.Combination)
+	for j, f := range cs.Loads.Factors[g.Combination] {
+		if f != 0 && slices.Contains(g.Loaded, cs.Loads.Shares[j]) {
+			s := at(cs.Shares[j], cs.SharesExact, j)
+			for i := range v {
+				v[i] += f * s[i]
+			}
+		}
+	}
+	switch {
+	case q != QCombinedStress:
+		return v[q]
+	case upper:
+		return max(v[bottomFibre], v[topFibre])
+	}
+	return min(v[bottomFibre], v[topFibre])
 }
 
 // zeroRoundOff sets to zero the extremes of qs that are round-off against

@@ -55,3 +55,48 @@ func TestTiesGoToTheFirstCombination(t *testing.T) {
 		}
 	}
 }
+
+// An extreme where the field of its combination jumps (the shear force
+// at a support) says on which side of the point it is read; one where the
+// field is continuous (the moment there, a span's deflection) says none.
+// Three equal spans L under a permanent load g on all and an imposed load
+// q placed by span, combined 1.35g + 1.5q: the shear force is most
+// negative just left of the first inner support with spans 1 and 2
+// loaded, −(1.35·0.6·|g| + 1.5·(37/60)·|q|)·L, and just right of it it is
+// 1.35·0.5·|g|·L + 1.5·(35/60)·|q|·L only; the most positive is its mirror
+// just right of the second (three-moment equation: all spans loaded,
+// M_B = −wL²/10; spans 1 and 2, M_B = −7wL²/60 and M_C = −wL²/30;
+// continuous-beam coefficients 0.600, 0.617 and 0.583 in the AISC Manual's
+// Beam Diagrams and Formulas, three equal spans, from memory).
+func TestEnvelopeSaysTheSideOfAJump(t *testing.T) {
+	const L, g, q = 4.0, -6e3, -10e3
+	m := threeSpans(L, g, q)
+	m.Combinations = []Combination{{Name: "strength", Kind: Strength, Factors: []CaseFactor{{0, 1.35}, {1, 1.5}}}}
+	_, cs := solveCombinations(t, m)
+	env := cs.Envelope()
+	shear := env.Quantities[QShearForce]
+	want := (1.35*0.6*g + 1.5*37.0/60*q) * L
+	for _, c := range []struct {
+		name string
+		got  Governing
+		x, v float64
+		side Side
+	}{
+		{"smallest shear force", shear.Min, L, want, Left},
+		{"largest shear force", shear.Max, 2 * L, -want, Right},
+	} {
+		if math.Abs(c.got.Value-c.v) > 1e-9*math.Abs(c.v) || math.Abs(c.got.X-c.x) > 1e-12 || c.got.Side != c.side {
+			t.Errorf("%s: %.10g N at x = %g m on side %d; want %.10g at %g m on side %d", c.name, c.got.Value, c.got.X, c.got.Side, c.v, c.x, c.side)
+		}
+	}
+	for _, qe := range env.Quantities {
+		if qe.Quantity == QShearForce {
+			continue
+		}
+		for _, g := range []Governing{qe.Max, qe.Min} {
+			if g.Side != 0 {
+				t.Errorf("%s: %g at x = %g m read on side %d, where the field does not jump", qe.Quantity, g.Value, g.X, g.Side)
+			}
+		}
+	}
+}

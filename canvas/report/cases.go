@@ -125,6 +125,11 @@ type GoverningJSON struct {
 	// Train is where the combination's moving load train stands when
 	// the extreme comes from a combination that takes one.
 	Train *TrainPlacementJSON `json:"train,omitempty"`
+	// Side is "left" or "right" where the field of the governing
+	// combination and arrangement jumps at X (the shear force at a
+	// support): the extreme is its limit just left or just right of X, as
+	// support_actions give both. Left out where the field does not jump.
+	Side string `json:"side,omitempty"`
 }
 
 // TrainPlacementJSON is a train at one position: its name, the x of its
@@ -231,7 +236,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 }
 
 func governingJSON(m *fem.Model, combinations []fem.Combination, g fem.Governing) GoverningJSON {
-	out := GoverningJSON{Value: g.Value, X: g.X, Combination: combinations[g.Combination].Name, LoadedSpans: []LoadedSpansJSON{}}
+	out := GoverningJSON{Value: g.Value, X: g.X, Combination: combinations[g.Combination].Name, LoadedSpans: []LoadedSpansJSON{}, Side: sideName(g.Side)}
 	for _, s := range g.Loaded {
 		name := m.LoadSetName(s.Case)
 		i := slices.IndexFunc(out.LoadedSpans, func(l LoadedSpansJSON) bool { return l.Case == name })
@@ -251,6 +256,28 @@ func governingJSON(m *fem.Model, combinations []fem.Combination, g fem.Governing
 		}
 	}
 	return out
+}
+
+// sideName names side as the document does: "left", "right", or "" for
+// none.
+func sideName(side fem.Side) string {
+	switch side {
+	case fem.Left:
+		return "left"
+	case fem.Right:
+		return "right"
+	}
+	return ""
+}
+
+// Place is where g is, in units u: "4.000 m", or "just left of 4.000 m"
+// where the field jumps there (g.Side).
+func (g GoverningJSON) Place(u units.System) string {
+	x := u.Format(units.Position, g.X)
+	if g.Side == "" {
+		return x
+	}
+	return "just " + g.Side + " of " + x
 }
 
 // Arrangement is g's loaded spans in words, and its train's position in
@@ -500,8 +527,8 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 	fmt.Fprintln(tw, "  quantity\tlargest\tat x\tgoverning\tsmallest\tat x\tgoverning")
 	for _, q := range r.Envelope.Quantities {
 		k := q.Quantity.Info().Unit
-		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\t%s\n", q.Quantity.Info().Name, u.Format(k, q.Max.Value), pos(q.Max.X), governingWords(q.Max, u),
-			u.Format(k, q.Min.Value), pos(q.Min.X), governingWords(q.Min, u))
+		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\t%s\n", q.Quantity.Info().Name, u.Format(k, q.Max.Value), q.Max.Place(u), governingWords(q.Max, u),
+			u.Format(k, q.Min.Value), q.Min.Place(u), governingWords(q.Min, u))
 	}
 	tw.Flush()
 	if len(r.Envelope.Reactions) == 0 {
@@ -554,6 +581,15 @@ func spanWords(spans [][2]float64) string {
 		return ""
 	}
 	return fmt.Sprintf(" and every arrangement of the %d spans for the cases placed by span", len(spans))
+}
+
+// atPlace is where g is as words after a value: "at 4.000 m", "just left
+// of 4.000 m".
+func atPlace(g GoverningJSON, u units.System) string {
+	if g.Side == "" {
+		return "at " + g.Place(u)
+	}
+	return g.Place(u)
 }
 
 // governingWords names what gives an extreme, positions in units u:
@@ -621,9 +657,9 @@ func sheetCaseLines(src Source) []string {
 		switch q.Quantity {
 		case fem.QBendingMoment:
 			k := q.Quantity.Info().Unit
-			lines = append(lines, fmt.Sprintf("Envelope of %s: largest %s at %s, %s; smallest %s at %s, %s.", q.Quantity.Info().Name,
-				u.Format(k, q.Max.Value), u.Format(units.Position, q.Max.X), governingWords(q.Max, u),
-				u.Format(k, q.Min.Value), u.Format(units.Position, q.Min.X), governingWords(q.Min, u)))
+			lines = append(lines, fmt.Sprintf("Envelope of %s: largest %s %s, %s; smallest %s %s, %s.", q.Quantity.Info().Name,
+				u.Format(k, q.Max.Value), atPlace(q.Max, u), governingWords(q.Max, u),
+				u.Format(k, q.Min.Value), atPlace(q.Min, u), governingWords(q.Min, u)))
 		}
 	}
 	// transverse is the range of one transverse envelope, numbered n;

@@ -165,6 +165,65 @@ func TestNegativeZeroFactorIsPlainZero(t *testing.T) {
 	}
 }
 
+// The envelope's extreme where the field jumps says on which side of the
+// point it is read, in the document ("side") and the text ("just left of
+// 4.000 m"), as support_actions give both sides; elsewhere it says none.
+// testdata/three_span_pattern.json, three spans of 4 m under 1.35 × 6
+// kN/m and 1.5 × 10 kN/m placed by span: the shear force is most negative
+// just left of the support at 4 m with spans 1 and 2 loaded,
+// −(1.35·0.6·6 + 1.5·(37/60)·10)·4 = −56.44 kN, its mirror +56.44 kN just
+// right of the support at 8 m (continuous-beam coefficients 0.600 and
+// 0.617 for three equal spans, three-moment equation; AISC Manual, Beam
+// Diagrams and Formulas, from memory). The moment is continuous and says
+// no side: over the support at 4 m it is −(0.1·8.1 + (7/60)·15)·4² =
+// −40.96 kN·m with spans 1 and 2 loaded, and in the first span R²/(2w) at
+// x = R/w with spans 1 and 3 loaded, w = 23.1 kN/m on it, M_B =
+// −(0.1·8.1 + 0.05·15)·4² and R = w·4/2 + M_B/4 (the same coefficients).
+func TestEnvelopeSaysTheSideOfAJump(t *testing.T) {
+	p, err := storage.Load("../../testdata/three_span_pattern.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	r := casesResults(t, p)
+	const w, mB = 23.1e3, -(0.1*8.1e3 + 0.05*15e3) * 16
+	const rA, v = w*4/2 + mB/4, (1.35*0.6*6e3 + 1.5*37.0/60*10e3) * 4
+	want := map[string][2]GoverningJSON{ // quantity: largest, smallest
+		"shear_force":    {{Value: v, X: 8, Side: "right"}, {Value: -v, X: 4, Side: "left"}},
+		"bending_moment": {{Value: rA * rA / (2 * w), X: rA / w}, {Value: -(0.1*8.1e3 + 7.0/60*15e3) * 16, X: 4}},
+	}
+	for _, q := range r.Envelope.Quantities {
+		w, ok := want[q.Name]
+		if !ok {
+			continue
+		}
+		for k, g := range []GoverningJSON{q.Max, q.Min} {
+			if math.Abs(g.Value-w[k].Value) > 1e-9*math.Abs(w[k].Value) || math.Abs(g.X-w[k].X) > 1e-9 || g.Side != w[k].Side {
+				t.Errorf("%s: %.10g at x = %g m, side %q; want %.10g at %g m, side %q", q.Name, g.Value, g.X, g.Side, w[k].Value, w[k].X, w[k].Side)
+			}
+		}
+	}
+	var text bytes.Buffer
+	WriteCasesText(&text, "three_span_pattern.json", r, units.SI)
+	for _, line := range strings.Split(text.String(), "\n") {
+		if strings.HasPrefix(line, "  shear force ") && !(strings.Contains(line, "just right of 8.000 m") && strings.Contains(line, "just left of 4.000 m")) {
+			t.Errorf("the text does not say the sides of the shear force's extremes:\n%s", line)
+		}
+		if strings.HasPrefix(line, "  bending moment ") && strings.Contains(line, "just ") {
+			t.Errorf("the text gives a side of the moment, which does not jump:\n%s", line)
+		}
+	}
+	// The drawing's labels of the envelope's extremes say it too.
+	var drawing bytes.Buffer
+	if _, err := Export(context.Background(), &drawing, p, "svg", Options{Show: analysis.Show{Kind: analysis.ShowEnvelope}}); err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"just left of 4.000 m", "just right of 8.000 m"} {
+		if !strings.Contains(drawing.String(), want) {
+			t.Errorf("the drawing's labels lack %q", want)
+		}
+	}
+}
+
 // A case that takes the segments' temperature differences says so, in the
 // document and in the text, where it read like an empty case; and the
 // combination takes it with its factor: a beam fixed at both ends, 30 K
