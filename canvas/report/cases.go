@@ -203,11 +203,11 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 		}
 		out.Combinations = append(out.Combinations, cj)
 	}
-	env := c.Envelope
+	env, shares := c.Envelope, c.Solutions.Loads.Shares
 	out.Envelope = EnvelopeJSON{Caution: CombinedCaution, Solution: envelopeSolution(env), Accuracy: envelopeAccuracy(c), Spans: c.Solutions.Loads.Spans}
 	for _, q := range env.Quantities {
 		out.Envelope.Quantities = append(out.Envelope.Quantities, QuantityEnvelope{Quantity: q.Quantity, Name: q.Quantity.Key(), Unit: q.Quantity.Info().SI,
-			Max: governingJSON(m, c.Combinations, q.Max), Min: governingJSON(m, c.Combinations, q.Min)})
+			Max: governingJSON(m, c.Combinations, shares, q.Max), Min: governingJSON(m, c.Combinations, shares, q.Min)})
 	}
 	out.Envelope.Reactions = []ReactionEnvelopeJS{} // a list even without supports (docs/json.md)
 	for _, r := range env.Reactions {
@@ -217,7 +217,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 		for d, name := range componentNames {
 			rj.Max[name], rj.Min[name] = nil, nil
 			if sup.Holds(fem.Dof(d)) {
-				hi, lo := governingJSON(m, c.Combinations, r.Max[d]), governingJSON(m, c.Combinations, r.Min[d])
+				hi, lo := governingJSON(m, c.Combinations, shares, r.Max[d]), governingJSON(m, c.Combinations, shares, r.Min[d])
 				rj.Max[name], rj.Min[name] = &hi, &lo
 			}
 		}
@@ -228,31 +228,33 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 		fj := FoundationEnvelopeJS{Foundation: f.Foundation + 1, Start: f.Start, End: f.End,
 			Max: map[string]GoverningJSON{}, Min: map[string]GoverningJSON{}}
 		for d, name := range componentNames[:2] {
-			fj.Max[name], fj.Min[name] = governingJSON(m, c.Combinations, f.Max[d]), governingJSON(m, c.Combinations, f.Min[d])
+			fj.Max[name], fj.Min[name] = governingJSON(m, c.Combinations, shares, f.Max[d]), governingJSON(m, c.Combinations, shares, f.Min[d])
 		}
 		out.Envelope.Foundations = append(out.Envelope.Foundations, fj)
 	}
 	return out, nil
 }
 
-func governingJSON(m *fem.Model, combinations []fem.Combination, g fem.Governing) GoverningJSON {
+// governingJSON is g of model m, whose envelope is over combinations with
+// the span shares shares (fem.CombinationLoads.Shares). Its loaded spans
+// have one entry for each case the combination places by span, with a
+// factor other than 0 and loads to place (a share), in the order of the
+// file's cases, as the checks' words give them: the spans g loads, []
+// for none.
+func governingJSON(m *fem.Model, combinations []fem.Combination, shares []fem.Share, g fem.Governing) GoverningJSON {
 	out := GoverningJSON{Value: g.Value, X: g.X, Combination: combinations[g.Combination].Name, LoadedSpans: []LoadedSpansJSON{}, Side: sideName(g.Side)}
-	for _, s := range g.Loaded {
-		name := m.LoadSetName(s.Case)
-		i := slices.IndexFunc(out.LoadedSpans, func(l LoadedSpansJSON) bool { return l.Case == name })
-		if i < 0 {
-			out.LoadedSpans = append(out.LoadedSpans, LoadedSpansJSON{Case: name})
-			i = len(out.LoadedSpans) - 1
+	for _, sh := range shares {
+		takes := slices.ContainsFunc(combinations[g.Combination].Factors, func(cf fem.CaseFactor) bool { return cf.Case == sh.Case && cf.Factor != 0 })
+		if !takes {
+			continue
 		}
-		out.LoadedSpans[i].Spans = append(out.LoadedSpans[i].Spans, s.Span+1)
-	}
-	for _, cf := range combinations[g.Combination].Factors {
-		// A case placed by span with no span loaded: say so.
-		if cf.Case < len(m.Cases) && m.Cases[cf.Case].BySpan && cf.Factor != 0 {
-			name := m.LoadSetName(cf.Case)
-			if !slices.ContainsFunc(out.LoadedSpans, func(l LoadedSpansJSON) bool { return l.Case == name }) {
-				out.LoadedSpans = append(out.LoadedSpans, LoadedSpansJSON{Case: name, Spans: []int{}})
-			}
+		name := m.LoadSetName(sh.Case)
+		if n := len(out.LoadedSpans); n == 0 || out.LoadedSpans[n-1].Case != name {
+			out.LoadedSpans = append(out.LoadedSpans, LoadedSpansJSON{Case: name, Spans: []int{}})
+		}
+		if slices.Contains(g.Loaded, sh) {
+			l := &out.LoadedSpans[len(out.LoadedSpans)-1]
+			l.Spans = append(l.Spans, sh.Span+1)
 		}
 	}
 	return out
@@ -411,7 +413,7 @@ func (r *CasesJSON) addTrainExtremes(m *fem.Model, trains []TrainResult) {
 			// arrangement is the one that raises q there.
 			governing := func(g fem.Governing, e TrainExtreme) GoverningJSON {
 				g.Value, g.X = e.Value, e.X
-				out := governingJSON(m, m.Combinations, g)
+				out := governingJSON(m, m.Combinations, c.solutions.Loads.Shares, g)
 				out.Train = &TrainPlacementJSON{Name: tr.Train.Name, Front: e.Front, Direction: e.Direction}
 				return out
 			}

@@ -224,6 +224,49 @@ func TestEnvelopeSaysTheSideOfAJump(t *testing.T) {
 	}
 }
 
+// loaded_spans has one entry for each case the governing combination
+// places by span and that has loads to place, in the order of the file's
+// cases, as the checks' words name them: its spans loaded, [] for none
+// ("up on no span"). A case placed by span with nothing to place (its
+// self-weight, which always acts) got an entry "on no span"; and a case
+// loading no span came after those loading some, whatever their order.
+// Two spans of 4 m under an uplift "up" of 5 kN/m and a load "down" of
+// 10 kN/m, each placed by span, and a self-weight case placed by span:
+// the moment over the middle support is most negative with "down" on
+// both spans and "up" on none (it lowers it on either); invented loads.
+func TestLoadedSpansOfEveryCasePlacedBySpan(t *testing.T) {
+	p, err := storage.Load("../../testdata/two_span_cases.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	uniform := func(w float64) []fem.DistributedLoad {
+		return []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: w}, {X: 8, Intensity: w}}}}
+	}
+	m := &p.Model
+	m.Gravity = [2]float64{0, -fem.StandardGravity}
+	m.Segments[0].Material.Density = 7850
+	m.Cases = []fem.LoadCase{
+		{Name: "up", DistributedLoad: uniform(5e3), BySpan: true},
+		{Name: "down", DistributedLoad: uniform(-10e3), BySpan: true},
+		{Name: "weight", SelfWeight: true, BySpan: true},
+	}
+	m.Combinations = []fem.Combination{{Name: "all", Kind: fem.Strength, Factors: []fem.CaseFactor{{Case: 2, Factor: 1}, {Case: 1, Factor: 1}, {Case: 0, Factor: 1}}}}
+	r := casesResults(t, p)
+	var got GoverningJSON
+	for _, q := range r.Envelope.Quantities {
+		if q.Quantity == fem.QBendingMoment {
+			got = q.Min
+		}
+	}
+	want := []LoadedSpansJSON{{Case: "up", Spans: []int{}}, {Case: "down", Spans: []int{1, 2}}}
+	if !slices.EqualFunc(got.LoadedSpans, want, func(a, b LoadedSpansJSON) bool { return a.Case == b.Case && slices.Equal(a.Spans, b.Spans) }) {
+		t.Errorf("smallest moment %g N·m at x = %g m: loaded spans %+v, want %+v", got.Value, got.X, got.LoadedSpans, want)
+	}
+	if words := got.Arrangement(units.SI); words != "up on no span; down on spans 1, 2" {
+		t.Errorf("the arrangement reads %q", words)
+	}
+}
+
 // A case that takes the segments' temperature differences says so, in the
 // document and in the text, where it read like an empty case; and the
 // combination takes it with its factor: a beam fixed at both ends, 30 K
