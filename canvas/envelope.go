@@ -124,17 +124,18 @@ func (b *builder) envelopeExtremes(d diagram, es *envelopeStrip, toY func(float6
 	type peak struct {
 		x, value float64
 		by       string
+		side     fem.Side // of x, where the field jumps there
 	}
 	var peaks []peak
 	if env.Result == nil {
 		if es.hi.n > 0 {
-			peaks = []peak{{es.hi.hi.x, es.hi.hi.value, ""}, {es.lo.lo.x, es.lo.lo.value, ""}}
+			peaks = []peak{{es.hi.hi.x, es.hi.hi.value, "", 0}, {es.lo.lo.x, es.lo.lo.value, "", 0}}
 		}
 	} else {
 		for _, qe := range env.Result.Quantities {
 			if qe.Quantity == q {
 				for _, g := range []fem.Governing{qe.Max, qe.Min} {
-					peaks = append(peaks, peak{g.X, g.Value, env.Names[g.Combination]})
+					peaks = append(peaks, peak{g.X, g.Value, env.Names[g.Combination], g.Side})
 				}
 			}
 		}
@@ -150,7 +151,14 @@ func (b *builder) envelopeExtremes(d diagram, es *envelopeStrip, toY func(float6
 		}
 		at := Point{b.sx(p.x), toY(p.value)}
 		b.marker(at, 2.5, d.colour, false)
-		s := fmt.Sprintf("%s at %s", b.format(q.Info().Unit, p.value), b.format(units.Position, p.x))
+		where := "at"
+		switch p.side {
+		case fem.Left:
+			where = "just left of"
+		case fem.Right:
+			where = "just right of"
+		}
+		s := fmt.Sprintf("%s %s %s", b.format(q.Info().Unit, p.value), where, b.format(units.Position, p.x))
 		if p.by != "" {
 			s += ", " + p.by
 		}

@@ -9,7 +9,8 @@ import (
 // Envelopes. The envelope of a member is, at every x and for every
 // quantity, the largest and the smallest value over its combinations (and,
 // for the cases placed by span, over every arrangement of loaded spans),
-// with the combination that governs each.
+// with the combination that governs each: where combinations tie to
+// round-off, the first in the file's order (Supersedes).
 //
 // Everything is superposition on one structure. A combination is split
 // into the loads it always applies (its cases with their factors, and the
@@ -329,6 +330,12 @@ type Governing struct {
 	X, Value    float64 // m, SI
 	Combination int     // index into CombinationLoads.Combinations
 	Loaded      []Share
+	// Side is the side of X that Value is read on where the field of the
+	// combination and arrangement jumps at X, a key point of the member
+	// (the shear force at a support or under a point force, the moment
+	// under a couple): Left for the limit just left of X. It is 0 where
+	// the field does not jump, and for reactions and foundations.
+	Side Side
 }
 
 // QuantityEnvelope is the largest and smallest value of one quantity over
@@ -395,7 +402,7 @@ type envelopeWalk struct {
 	lo, hi            [envelopeValues]envelopePoint
 	// size is, per value, the largest magnitude of its extremes so far:
 	// a later value ties with an extreme to round-off against it
-	// (BeyondField), so that of the places where a field is zero (the
+	// (supersedes), so that of the places where a field is zero (the
 	// supports' deflection, an end's moment) the first is named.
 	size [envelopeValues]float64
 	// The polynomials of one element: the shares', and one combination's
@@ -554,18 +561,52 @@ func (w *envelopeWalk) visit(e int, start, end float64) {
 
 // take keeps l and u, the smallest and largest of value i found on
 // element e (or the interval of the exact solutions, w.fixed[0]) for
-// combination c, where they pass the extremes so far; the first met wins
-// a tie, to round-off against the field's size so far.
+// combination c, where they supersede the extremes so far (supersedes:
+// a tie, to round-off against the field's size so far, goes to the
+// first combination in the file, then to the first place along the
+// member).
 func (w *envelopeWalk) take(i, e, c int, l, u extremum) {
 	v := &w.fixed[0]
-	lo, hi := &w.lo[i], &w.hi[i]
 	w.size[i] = max(w.size[i], math.Abs(l.value), math.Abs(u.value))
-	if BeyondField(lo.value, l.value, w.size[i]) {
-		*lo = envelopePoint{e, v.Start, v.X(1), l.xi, v.X(l.xi), l.value, c}
+	if lo := (envelopePoint{e, v.Start, v.X(1), l.xi, v.X(l.xi), l.value, c}); lo.supersedes(&w.lo[i], w.size[i], false) {
+		w.lo[i] = lo
 	}
-	if BeyondField(u.value, hi.value, w.size[i]) {
-		*hi = envelopePoint{e, v.Start, v.X(1), u.xi, v.X(u.xi), u.value, c}
+	if hi := (envelopePoint{e, v.Start, v.X(1), u.xi, v.X(u.xi), u.value, c}); hi.supersedes(&w.hi[i], w.size[i], true) {
+		w.hi[i] = hi
 	}
+}
+
+// Supersedes reports whether a takes the place of b as the largest value
+// of an envelope: a exceeds b by more than a tie (Beyond: extremeTie of
+// the smaller, and by more than tolerance, the round-off of the field),
+// or the two tie and first says a comes first (its combination before
+// b's in the file). Of the smallest, Supersedes(−a, −b, tolerance, first).
+//
+// So where combinations give one extreme to round-off, which of them is
+// named is no accident of round-off: it is the first in the file's order
+// (docs/format.md, combinations), in the envelope's quantities, its
+// reactions and foundations, the checks the envelope takes from the
+// combinations, and the drawing's readout.
+func Supersedes(a, b, tolerance float64, first bool) bool {
+	switch {
+	case Beyond(a, b) && a-b > tolerance:
+		return true
+	case Beyond(b, a) && b-a > tolerance:
+		return false
+	}
+	return first
+}
+
+// supersedes reports whether p takes the place of q as the largest
+// (upper) or the smallest value of a field whose largest magnitude is
+// size: by Supersedes, a tie going to the first combination in the file,
+// then, of one combination's, to the first place along the member.
+func (p *envelopePoint) supersedes(q *envelopePoint, size float64, upper bool) bool {
+	a, b := p.value, q.value
+	if !upper {
+		a, b = -a, -b
+	}
+	return Supersedes(a, b, extremeTie*size, p.combination < q.combination || p.combination == q.combination && p.x < q.x)
 }
 
 // patternRange is the smallest and the largest value on [0, 1] of
@@ -624,15 +665,15 @@ func rangeBetween(p *Polynomial, d int, a, b float64) (lo, hi extremum) {
 	return lo, hi
 }
 
-// join takes later, a walk over elements after w's, into w: ties go to
-// w's, the earlier.
+// join takes later, a walk over elements after w's, into w: a tie goes
+// to the first combination, then to w's, the earlier place.
 func (w *envelopeWalk) join(later *envelopeWalk) {
 	for i := range w.lo {
 		size := max(w.size[i], later.size[i])
-		if BeyondField(w.lo[i].value, later.lo[i].value, size) {
+		if later.lo[i].supersedes(&w.lo[i], size, false) {
 			w.lo[i] = later.lo[i]
 		}
-		if BeyondField(later.hi[i].value, w.hi[i].value, size) {
+		if later.hi[i].supersedes(&w.hi[i], size, true) {
 			w.hi[i] = later.hi[i]
 		}
 		w.size[i] = size
@@ -659,7 +700,74 @@ func (cs *CombinationSolutions) Envelope() *Envelope {
 	}
 	qs := w.quantities()
 	zeroRoundOff(qs, slices.Concat(cs.Fixed, cs.Shares))
+	cs.readSides(qs, w.exact)
 	return &Envelope{Exact: w.exact, Quantities: qs, Reactions: cs.reactionEnvelope(), Foundations: cs.foundationEnvelope()}
+}
+
+// readSides sets the Side of each extreme of qs that lies at a key point
+// of the member where the field of its combination and arrangement jumps
+// by more than round-off of the field's size (negligible): the side whose
+// limit, in the solutions the envelope is of (the exact ones when exact is
+// true), is nearer the extreme's value. Whether the field jumps is read
+// from the exact solutions where there are any: a finite element field
+// also jumps between elements, by the mesh's error, where no side is
+// given.
+func (cs *CombinationSolutions) readSides(qs []QuantityEnvelope, exact bool) {
+	keys := cs.Loads.Fixed[0].Keys
+	tol := mergeTolerance * cs.Fixed[0].Model.Length()
+	for i := range qs {
+		q := &qs[i]
+		size := max(math.Abs(q.Max.Value), math.Abs(q.Min.Value))
+		for _, g := range [2]*Governing{&q.Max, &q.Min} {
+			k, _ := slices.BinarySearch(keys, g.X)
+			if !(k < len(keys) && keys[k]-g.X <= tol || k > 0 && g.X-keys[k-1] <= tol) {
+				continue
+			}
+			upper := g == &q.Max
+			read := cs.FixedExact != nil
+			if left, right := cs.arrangedValue(g, q.Quantity, Left, read, upper), cs.arrangedValue(g, q.Quantity, Right, read, upper); math.Abs(left-right) <= negligible*size {
+				continue
+			}
+			switch left, right := cs.arrangedValue(g, q.Quantity, Left, exact, upper), cs.arrangedValue(g, q.Quantity, Right, exact, upper); {
+			case math.Abs(left-g.Value) < math.Abs(right-g.Value):
+				g.Side = Left
+			default:
+				g.Side = Right
+			}
+		}
+	}
+}
+
+// arrangedValue is quantity q at g.X, read on side, of g's combination
+// with the span shares g loads: of the exact solutions when exact is
+// true. Of the combined stress it is the larger of the fibres' (upper)
+// or the smaller.
+func (cs *CombinationSolutions) arrangedValue(g *Governing, q Quantity, side Side, exact bool, upper bool) float64 {
+	at := func(fe *Solution, ex []*Exact, k int) [envelopeValues]float64 {
+		var f Fields
+		if exact {
+			f = ex[k].At(g.X, side)
+		} else {
+			f = fe.At(g.X, side)
+		}
+		return sampleValues(&f)
+	}
+	v := at(cs.Fixed[g.Combination], cs.FixedExact, g.Combination)
+	for j, f := range cs.Loads.Factors[g.Combination] {
+		if f != 0 && slices.Contains(g.Loaded, cs.Loads.Shares[j]) {
+			s := at(cs.Shares[j], cs.SharesExact, j)
+			for i := range v {
+				v[i] += f * s[i]
+			}
+		}
+	}
+	switch {
+	case q != QCombinedStress:
+		return v[q]
+	case upper:
+		return max(v[bottomFibre], v[topFibre])
+	}
+	return min(v[bottomFibre], v[topFibre])
 }
 
 // zeroRoundOff sets to zero the extremes of qs that are round-off against
@@ -708,13 +816,31 @@ func zeroRoundOff(qs []QuantityEnvelope, sets []*Solution) {
 // deflection check measured from such a line (through the span's ends
 // where its supports settle) finds its worst arrangement: the shares'
 // deflections are taken as they are.
+//
+// It walks the shares combination c takes alone, and the key points of
+// their exact solutions alone: the checks ask it for every combination,
+// and a walk over the shares of every case placed by span (and between
+// the key points of them all) made a model of 300 combinations walk each
+// share 300 times.
 func (cs *CombinationSolutions) Within(c int, from, to float64, chord [2]float64) []QuantityEnvelope {
+	floors := cs.shareFloors()
 	one := &CombinationSolutions{
 		Loads: &CombinationLoads{Combinations: cs.Loads.Combinations[c : c+1], Spans: cs.Loads.Spans,
-			Fixed: cs.Loads.Fixed[c : c+1], Shares: cs.Loads.Shares, ShareLoads: cs.Loads.ShareLoads, Factors: cs.Loads.Factors[c : c+1]},
-		Fixed: cs.Fixed[c : c+1], Shares: cs.Shares, floors: cs.floors}
+			Fixed: cs.Loads.Fixed[c : c+1], Factors: [][]float64{nil}},
+		Fixed: cs.Fixed[c : c+1], floors: []floorSizes{}}
 	if cs.FixedExact != nil {
-		one.FixedExact, one.SharesExact = cs.FixedExact[c:c+1], cs.SharesExact
+		one.FixedExact = cs.FixedExact[c : c+1]
+	}
+	for j, f := range cs.Loads.Factors[c] {
+		if f == 0 {
+			continue
+		}
+		l := one.Loads
+		l.Shares, l.ShareLoads, l.Factors[0] = append(l.Shares, cs.Loads.Shares[j]), append(l.ShareLoads, cs.Loads.ShareLoads[j]), append(l.Factors[0], f)
+		one.Shares, one.floors = append(one.Shares, cs.Shares[j]), append(one.floors, floors[j])
+		if cs.FixedExact != nil {
+			one.SharesExact = append(one.SharesExact, cs.SharesExact[j])
+		}
 	}
 	w := newEnvelopeWalk(one)
 	w.chord = func(x float64) float64 { return chord[0] + (chord[1]-chord[0])*(x-from)/(to-from) }
@@ -748,10 +874,11 @@ func (w *envelopeWalk) quantities() []QuantityEnvelope {
 		var lo, hi Governing
 		if q == QCombinedStress {
 			lo, hi = w.governing(&w.lo[bottomFibre], bottomFibre, false), w.governing(&w.hi[bottomFibre], bottomFibre, true)
-			if w.lo[topFibre].value < lo.Value {
+			size := max(w.size[bottomFibre], w.size[topFibre])
+			if w.lo[topFibre].supersedes(&w.lo[bottomFibre], size, false) {
 				lo = w.governing(&w.lo[topFibre], topFibre, false)
 			}
-			if w.hi[topFibre].value > hi.Value {
+			if w.hi[topFibre].supersedes(&w.hi[bottomFibre], size, true) {
 				hi = w.governing(&w.hi[topFibre], topFibre, true)
 			}
 		} else {
@@ -873,11 +1000,11 @@ func (cs *CombinationSolutions) reactionEnvelope() []ReactionEnvelope {
 	for i, r := range cs.Fixed[0].Reactions {
 		re := ReactionEnvelope{Support: r.Support, X: r.X}
 		for d := range 3 {
-			re.Min[d], re.Max[d] = cs.linearEnvelope(r.X, func(s *Solution) float64 { return s.Reactions[i].Force[d] }, Dof(d) == Rotation)
 			size := force
 			if Dof(d) == Rotation {
 				size *= L
 			}
+			re.Min[d], re.Max[d] = cs.linearEnvelope(r.X, func(s *Solution) float64 { return s.Reactions[i].Force[d] }, Dof(d) == Rotation, size)
 			dropRoundOff(size, &re.Min[d], &re.Max[d])
 		}
 		out[i] = re
@@ -918,7 +1045,7 @@ func (cs *CombinationSolutions) foundationEnvelope() []FoundationEnvelope {
 	for i, r := range cs.Fixed[0].Foundations {
 		fe := FoundationEnvelope{Foundation: r.Foundation, Start: r.Start, End: r.End}
 		for d := range 2 {
-			fe.Min[d], fe.Max[d] = cs.linearEnvelope(0.5*(r.Start+r.End), func(s *Solution) float64 { return s.Foundations[i].Force[d] }, false)
+			fe.Min[d], fe.Max[d] = cs.linearEnvelope(0.5*(r.Start+r.End), func(s *Solution) float64 { return s.Foundations[i].Force[d] }, false, force)
 			dropRoundOff(force, &fe.Min[d], &fe.Max[d])
 		}
 		out[i] = fe
@@ -928,8 +1055,10 @@ func (cs *CombinationSolutions) foundationEnvelope() []FoundationEnvelope {
 
 // linearEnvelope is the smallest and largest over every combination and
 // arrangement of a result that is linear in the loads, read from each
-// solution by value, placed at x.
-func (cs *CombinationSolutions) linearEnvelope(x float64, value func(*Solution) float64, moment bool) (lo, hi Governing) {
+// solution by value, placed at x; size is the size of such results (of
+// the forces of every load set), against which values that differ by
+// round-off tie, and a tie goes to the first combination (Supersedes).
+func (cs *CombinationSolutions) linearEnvelope(x float64, value func(*Solution) float64, moment bool, size float64) (lo, hi Governing) {
 	shares := make([]float64, len(cs.Shares))
 	tolerances := make([]float64, len(cs.Shares))
 	floors := cs.shareFloors()
@@ -941,12 +1070,13 @@ func (cs *CombinationSolutions) linearEnvelope(x float64, value func(*Solution) 
 		}
 		tolerances[j] = shareTolerance(floors[j], &sh.Model, int(q), x)
 	}
+	tie := extremeTie * size
 	for c, s := range cs.Fixed {
 		l, h := cs.worst(c, value(s), shares, tolerances)
-		if c == 0 || l.Value < lo.Value {
+		if c == 0 || Supersedes(-l.Value, -lo.Value, tie, false) {
 			lo = l
 		}
-		if c == 0 || h.Value > hi.Value {
+		if c == 0 || Supersedes(h.Value, hi.Value, tie, false) {
 			hi = h
 		}
 	}
@@ -1068,10 +1198,10 @@ func (cs *CombinationSolutions) At(x float64, side Side, exact bool) EnvelopeSam
 				column[j], tolerance[j] = shares[j][i], tolerances[j][i]
 			}
 			l, h := cs.worst(c, a[i], column, tolerance)
-			if c == 0 || l.Value < lo[i] {
+			if c == 0 || Supersedes(-l.Value, -lo[i], 0, false) {
 				lo[i], loBy[i] = l.Value, c
 			}
-			if c == 0 || h.Value > hi[i] {
+			if c == 0 || Supersedes(h.Value, hi[i], 0, false) {
 				hi[i], hiBy[i] = h.Value, c
 			}
 		}
@@ -1081,11 +1211,11 @@ func (cs *CombinationSolutions) At(x float64, side Side, exact bool) EnvelopeSam
 	copy(s.LoBy[:], loBy[:polynomialQuantities])
 	copy(s.HiBy[:], hiBy[:polynomialQuantities])
 	s.Lo.CombinedStress, s.LoBy[QCombinedStress] = lo[bottomFibre], loBy[bottomFibre]
-	if lo[topFibre] < lo[bottomFibre] {
+	if Supersedes(-lo[topFibre], -lo[bottomFibre], 0, loBy[topFibre] < loBy[bottomFibre]) {
 		s.Lo.CombinedStress, s.LoBy[QCombinedStress] = lo[topFibre], loBy[topFibre]
 	}
 	s.Hi.CombinedStress, s.HiBy[QCombinedStress] = hi[bottomFibre], hiBy[bottomFibre]
-	if hi[topFibre] > hi[bottomFibre] {
+	if Supersedes(hi[topFibre], hi[bottomFibre], 0, hiBy[topFibre] < hiBy[bottomFibre]) {
 		s.Hi.CombinedStress, s.HiBy[QCombinedStress] = hi[topFibre], hiBy[topFibre]
 	}
 	return s

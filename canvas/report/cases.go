@@ -3,7 +3,6 @@ package report
 import (
 	"fmt"
 	"io"
-	"math"
 	"slices"
 	"strings"
 	"text/tabwriter"
@@ -126,6 +125,11 @@ type GoverningJSON struct {
 	// Train is where the combination's moving load train stands when
 	// the extreme comes from a combination that takes one.
 	Train *TrainPlacementJSON `json:"train,omitempty"`
+	// Side is "left" or "right" where the field of the governing
+	// combination and arrangement jumps at X (the shear force at a
+	// support): the extreme is its limit just left or just right of X, as
+	// support_actions give both. Left out where the field does not jump.
+	Side string `json:"side,omitempty"`
 }
 
 // TrainPlacementJSON is a train at one position: its name, the x of its
@@ -192,18 +196,18 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 	for k, cb := range c.Combinations {
 		cj := CombinationJSON{Name: cb.Name, Kind: cb.Kind.String(), Label: cb.Label}
 		for _, f := range cb.Factors {
-			cj.Factors = append(cj.Factors, FactorJSON{Case: m.LoadSetName(f.Case), Factor: f.Factor})
+			cj.Factors = append(cj.Factors, FactorJSON{Case: m.LoadSetName(f.Case), Factor: plainZero(f.Factor)})
 		}
 		if k < len(c.Summaries) && c.Summaries[k] != nil {
 			cj.Results = resultsOf(*c.Summaries[k])
 		}
 		out.Combinations = append(out.Combinations, cj)
 	}
-	env := c.Envelope
+	env, shares := c.Envelope, c.Solutions.Loads.Shares
 	out.Envelope = EnvelopeJSON{Caution: CombinedCaution, Solution: envelopeSolution(env), Accuracy: envelopeAccuracy(c), Spans: c.Solutions.Loads.Spans}
 	for _, q := range env.Quantities {
 		out.Envelope.Quantities = append(out.Envelope.Quantities, QuantityEnvelope{Quantity: q.Quantity, Name: q.Quantity.Key(), Unit: q.Quantity.Info().SI,
-			Max: governingJSON(m, c.Combinations, q.Max), Min: governingJSON(m, c.Combinations, q.Min)})
+			Max: governingJSON(m, c.Combinations, shares, q.Max), Min: governingJSON(m, c.Combinations, shares, q.Min)})
 	}
 	out.Envelope.Reactions = []ReactionEnvelopeJS{} // a list even without supports (docs/json.md)
 	for _, r := range env.Reactions {
@@ -213,7 +217,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 		for d, name := range componentNames {
 			rj.Max[name], rj.Min[name] = nil, nil
 			if sup.Holds(fem.Dof(d)) {
-				hi, lo := governingJSON(m, c.Combinations, r.Max[d]), governingJSON(m, c.Combinations, r.Min[d])
+				hi, lo := governingJSON(m, c.Combinations, shares, r.Max[d]), governingJSON(m, c.Combinations, shares, r.Min[d])
 				rj.Max[name], rj.Min[name] = &hi, &lo
 			}
 		}
@@ -224,34 +228,58 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 		fj := FoundationEnvelopeJS{Foundation: f.Foundation + 1, Start: f.Start, End: f.End,
 			Max: map[string]GoverningJSON{}, Min: map[string]GoverningJSON{}}
 		for d, name := range componentNames[:2] {
-			fj.Max[name], fj.Min[name] = governingJSON(m, c.Combinations, f.Max[d]), governingJSON(m, c.Combinations, f.Min[d])
+			fj.Max[name], fj.Min[name] = governingJSON(m, c.Combinations, shares, f.Max[d]), governingJSON(m, c.Combinations, shares, f.Min[d])
 		}
 		out.Envelope.Foundations = append(out.Envelope.Foundations, fj)
 	}
 	return out, nil
 }
 
-func governingJSON(m *fem.Model, combinations []fem.Combination, g fem.Governing) GoverningJSON {
-	out := GoverningJSON{Value: g.Value, X: g.X, Combination: combinations[g.Combination].Name, LoadedSpans: []LoadedSpansJSON{}}
-	for _, s := range g.Loaded {
-		name := m.LoadSetName(s.Case)
-		i := slices.IndexFunc(out.LoadedSpans, func(l LoadedSpansJSON) bool { return l.Case == name })
-		if i < 0 {
-			out.LoadedSpans = append(out.LoadedSpans, LoadedSpansJSON{Case: name})
-			i = len(out.LoadedSpans) - 1
+// governingJSON is g of model m, whose envelope is over combinations with
+// the span shares shares (fem.CombinationLoads.Shares). Its loaded spans
+// have one entry for each case the combination places by span, with a
+// factor other than 0 and loads to place (a share), in the order of the
+// file's cases, as the checks' words give them: the spans g loads, []
+// for none.
+func governingJSON(m *fem.Model, combinations []fem.Combination, shares []fem.Share, g fem.Governing) GoverningJSON {
+	out := GoverningJSON{Value: g.Value, X: g.X, Combination: combinations[g.Combination].Name, LoadedSpans: []LoadedSpansJSON{}, Side: sideName(g.Side)}
+	for _, sh := range shares {
+		takes := slices.ContainsFunc(combinations[g.Combination].Factors, func(cf fem.CaseFactor) bool { return cf.Case == sh.Case && cf.Factor != 0 })
+		if !takes {
+			continue
 		}
-		out.LoadedSpans[i].Spans = append(out.LoadedSpans[i].Spans, s.Span+1)
-	}
-	for _, cf := range combinations[g.Combination].Factors {
-		// A case placed by span with no span loaded: say so.
-		if cf.Case < len(m.Cases) && m.Cases[cf.Case].BySpan && cf.Factor != 0 {
-			name := m.LoadSetName(cf.Case)
-			if !slices.ContainsFunc(out.LoadedSpans, func(l LoadedSpansJSON) bool { return l.Case == name }) {
-				out.LoadedSpans = append(out.LoadedSpans, LoadedSpansJSON{Case: name, Spans: []int{}})
-			}
+		name := m.LoadSetName(sh.Case)
+		if n := len(out.LoadedSpans); n == 0 || out.LoadedSpans[n-1].Case != name {
+			out.LoadedSpans = append(out.LoadedSpans, LoadedSpansJSON{Case: name, Spans: []int{}})
+		}
+		if slices.Contains(g.Loaded, sh) {
+			l := &out.LoadedSpans[len(out.LoadedSpans)-1]
+			l.Spans = append(l.Spans, sh.Span+1)
 		}
 	}
 	return out
+}
+
+// sideName names side as the document does: "left", "right", or "" for
+// none.
+func sideName(side fem.Side) string {
+	switch side {
+	case fem.Left:
+		return "left"
+	case fem.Right:
+		return "right"
+	}
+	return ""
+}
+
+// Place is where g is, in units u: "4.000 m", or "just left of 4.000 m"
+// where the field jumps there (g.Side).
+func (g GoverningJSON) Place(u units.System) string {
+	x := u.Format(units.Position, g.X)
+	if g.Side == "" {
+		return x
+	}
+	return "just " + g.Side + " of " + x
 }
 
 // Arrangement is g's loaded spans in words, and its train's position in
@@ -281,12 +309,13 @@ func (g GoverningJSON) Arrangement(u units.System) string {
 }
 
 // FactorsText is a combination's factors in words: "1.35 × permanent + 1.5 × imposed".
-// A negative factor is subtracted: "1 × permanent − 0.5 × wind".
+// A negative factor is subtracted: "1 × permanent − 0.5 × wind"; a factor
+// of 0, −0 too, is a term "+ 0 × snow".
 func FactorsText(c CombinationJSON) string {
 	var b strings.Builder
 	for i, f := range c.Factors {
-		sign, factor := "+", f.Factor
-		if math.Signbit(factor) {
+		sign, factor := "+", plainZero(f.Factor)
+		if factor < 0 {
 			sign, factor = "−", -factor
 		}
 		switch {
@@ -302,6 +331,15 @@ func FactorsText(c CombinationJSON) string {
 		}
 	}
 	return b.String()
+}
+
+// plainZero is f with a zero of either sign as 0: a file may write a
+// factor "-0", which is no subtraction and reads "-0" in a document.
+func plainZero(f float64) float64 {
+	if f == 0 {
+		return 0
+	}
+	return f
 }
 
 // WithTrains adds to r what CasesResults, reading the analysis alone,
@@ -329,7 +367,7 @@ func (r *CasesJSON) addTrainFactors(m *fem.Model, trains []moving.Train) {
 			}
 			for _, tf := range cb.Trains {
 				if tf.Train >= 0 && tf.Train < len(trains) {
-					c.Factors = append(c.Factors, FactorJSON{Train: trains[tf.Train].Name, Factor: tf.Factor})
+					c.Factors = append(c.Factors, FactorJSON{Train: trains[tf.Train].Name, Factor: plainZero(tf.Factor)})
 				}
 			}
 		}
@@ -360,20 +398,31 @@ func (r *CasesJSON) addTrainExtremes(m *fem.Model, trains []TrainResult) {
 	unstressedAlong := axial != nil && axial.Max.Value == 0 && axial.Min.Value == 0
 	for _, tr := range trains {
 		for _, c := range tr.Combinations {
+			// beyond reports whether v, of this combination with its
+			// train, takes the place of g as the largest (upper) or the
+			// smallest: a tie goes to the first combination in the
+			// file, and within one to its cases alone (fem.Supersedes).
+			beyond := func(v float64, g *GoverningJSON, upper bool) bool {
+				first := c.index < slices.IndexFunc(m.Combinations, func(cb fem.Combination) bool { return cb.Name == g.Combination })
+				if upper {
+					return fem.Supersedes(v, g.Value, 0, first)
+				}
+				return fem.Supersedes(-v, -g.Value, 0, first)
+			}
 			// upper says the extreme is a largest value, whose cases'
 			// arrangement is the one that raises q there.
 			governing := func(g fem.Governing, e TrainExtreme) GoverningJSON {
 				g.Value, g.X = e.Value, e.X
-				out := governingJSON(m, m.Combinations, g)
+				out := governingJSON(m, m.Combinations, c.solutions.Loads.Shares, g)
 				out.Train = &TrainPlacementJSON{Name: tr.Train.Name, Front: e.Front, Direction: e.Direction}
 				return out
 			}
 			for _, w := range c.Worst {
 				if q := envelope(w.Quantity); q != nil {
-					if w.Largest.Value > q.Max.Value {
+					if beyond(w.Largest.Value, &q.Max, true) {
 						q.Max = governing(c.Loaded(w.Quantity, w.Largest.X, true), w.Largest)
 					}
-					if w.Smallest.Value < q.Min.Value {
+					if beyond(w.Smallest.Value, &q.Min, false) {
 						q.Min = governing(c.Loaded(w.Quantity, w.Smallest.X, false), w.Smallest)
 					}
 				}
@@ -384,10 +433,10 @@ func (r *CasesJSON) addTrainExtremes(m *fem.Model, trains []TrainResult) {
 						worse.Value = -worse.Value
 					}
 					loaded := c.Loaded(w.Quantity, worse.X, upper)
-					if worse.Value > q.Max.Value {
+					if beyond(worse.Value, &q.Max, true) {
 						q.Max = governing(loaded, worse)
 					}
-					if worse.Value > -q.Min.Value {
+					if beyond(-worse.Value, &q.Min, false) {
 						q.Min = governing(loaded, worse)
 						q.Min.Value = -worse.Value
 					}
@@ -402,10 +451,10 @@ func (r *CasesJSON) addTrainExtremes(m *fem.Model, trains []TrainResult) {
 					}
 					x := m.Supports[re.Support].X
 					lo, hi := c.solutions.ArrangedReaction(c.index, re.Support, re.Motion)
-					if g := env.Max[name]; g != nil && re.Max > g.Value {
+					if g := env.Max[name]; g != nil && beyond(re.Max, g, true) {
 						*g = governing(hi, TrainExtreme{Value: re.Max, X: x, Front: re.MaxAt.Front, Direction: re.MaxAt.Direction.String()})
 					}
-					if g := env.Min[name]; g != nil && re.Min < g.Value {
+					if g := env.Min[name]; g != nil && beyond(re.Min, g, false) {
 						*g = governing(lo, TrainExtreme{Value: re.Min, X: x, Front: re.MinAt.Front, Direction: re.MinAt.Direction.String()})
 					}
 				}
@@ -480,8 +529,8 @@ func WriteCasesText(w io.Writer, path string, r *CasesJSON, u units.System) {
 	fmt.Fprintln(tw, "  quantity\tlargest\tat x\tgoverning\tsmallest\tat x\tgoverning")
 	for _, q := range r.Envelope.Quantities {
 		k := q.Quantity.Info().Unit
-		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\t%s\n", q.Quantity.Info().Name, u.Format(k, q.Max.Value), pos(q.Max.X), governingWords(q.Max, u),
-			u.Format(k, q.Min.Value), pos(q.Min.X), governingWords(q.Min, u))
+		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\t%s\n", q.Quantity.Info().Name, u.Format(k, q.Max.Value), q.Max.Place(u), governingWords(q.Max, u),
+			u.Format(k, q.Min.Value), q.Min.Place(u), governingWords(q.Min, u))
 	}
 	tw.Flush()
 	if len(r.Envelope.Reactions) == 0 {
@@ -534,6 +583,15 @@ func spanWords(spans [][2]float64) string {
 		return ""
 	}
 	return fmt.Sprintf(" and every arrangement of the %d spans for the cases placed by span", len(spans))
+}
+
+// atPlace is where g is as words after a value: "at 4.000 m", "just left
+// of 4.000 m".
+func atPlace(g GoverningJSON, u units.System) string {
+	if g.Side == "" {
+		return "at " + g.Place(u)
+	}
+	return g.Place(u)
 }
 
 // governingWords names what gives an extreme, positions in units u:
@@ -601,9 +659,9 @@ func sheetCaseLines(src Source) []string {
 		switch q.Quantity {
 		case fem.QBendingMoment:
 			k := q.Quantity.Info().Unit
-			lines = append(lines, fmt.Sprintf("Envelope of %s: largest %s at %s, %s; smallest %s at %s, %s.", q.Quantity.Info().Name,
-				u.Format(k, q.Max.Value), u.Format(units.Position, q.Max.X), governingWords(q.Max, u),
-				u.Format(k, q.Min.Value), u.Format(units.Position, q.Min.X), governingWords(q.Min, u)))
+			lines = append(lines, fmt.Sprintf("Envelope of %s: largest %s %s, %s; smallest %s %s, %s.", q.Quantity.Info().Name,
+				u.Format(k, q.Max.Value), atPlace(q.Max, u), governingWords(q.Max, u),
+				u.Format(k, q.Min.Value), atPlace(q.Min, u), governingWords(q.Min, u)))
 		}
 	}
 	// transverse is the range of one transverse envelope, numbered n;

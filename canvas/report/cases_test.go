@@ -113,10 +113,157 @@ func TestFactorsText(t *testing.T) {
 		{[]FactorJSON{{Case: "permanent", Factor: 1.35}, {Case: "imposed", Factor: 1.5}}, "1.35 × permanent + 1.5 × imposed"},
 		{[]FactorJSON{{Case: "permanent", Factor: 1}, {Case: "wind", Factor: -0.5}, {Train: "cart", Factor: 1.5}}, `1 × permanent − 0.5 × wind + 1.5 × train "cart"`},
 		{[]FactorJSON{{Case: "uplift", Factor: -1}, {Case: "permanent", Factor: 0}}, "−1 × uplift + 0 × permanent"},
+		// A factor of −0 (a file may write "-0") is a plain 0 term, first or later.
+		{[]FactorJSON{{Case: "permanent", Factor: 1.35}, {Case: "imposed", Factor: math.Copysign(0, -1)}}, "1.35 × permanent + 0 × imposed"},
+		{[]FactorJSON{{Case: "permanent", Factor: math.Copysign(0, -1)}, {Case: "imposed", Factor: 1}}, "0 × permanent + 1 × imposed"},
 	} {
 		if got := FactorsText(CombinationJSON{Factors: c.factors}); got != c.want {
 			t.Errorf("got %q, want %q", got, c.want)
 		}
+	}
+}
+
+// A factor written "-0" in the file, of a case or of a moving load train,
+// is 0 in the results document as in the text: "factor": 0, not -0, and
+// "+ 0 × imposed", not "− 0 × imposed".
+func TestNegativeZeroFactorIsPlainZero(t *testing.T) {
+	p, err := storage.Load("../../testdata/three_span_pattern.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	negativeZero := math.Copysign(0, -1)
+	p.Model.Combinations[0].Factors[1].Factor = negativeZero
+	p.Trains = []moving.Train{{Name: "trolley", Axles: []moving.Axle{{Load: 12e3}}, Step: 0.5}}
+	p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 0, Factor: negativeZero}}
+	src, err := Analyse(context.Background(), p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := CasesResults(src.Analysis)
+	if err != nil {
+		t.Fatal(err)
+	}
+	trains := r.WithTrains(src)
+	factors := map[string]float64{}
+	for _, f := range r.Combinations[0].Factors {
+		factors[f.Case+f.Train] = f.Factor
+	}
+	for _, tr := range TrainsJSON(&p.Model, trains, false) {
+		for _, c := range tr.Combinations {
+			factors[tr.Train+" in "+c.Combination] = c.Factor
+		}
+	}
+	for _, name := range []string{"imposed", "trolley", "trolley in strength"} {
+		if f, ok := factors[name]; !ok || f != 0 || math.Signbit(f) {
+			t.Errorf("factor of %s: %g (found %v, sign bit %v), want 0", name, f, ok, math.Signbit(f))
+		}
+	}
+	var text bytes.Buffer
+	WriteCasesText(&text, "three_span_pattern.json", r, units.SI)
+	if !strings.Contains(text.String(), `1.35 × permanent + 0 × imposed + 0 × train "trolley"`) {
+		t.Errorf("the text does not give the factors as a plain 0:\n%s", text.String())
+	}
+}
+
+// The envelope's extreme where the field jumps says on which side of the
+// point it is read, in the document ("side") and the text ("just left of
+// 4.000 m"), as support_actions give both sides; elsewhere it says none.
+// testdata/three_span_pattern.json, three spans of 4 m under 1.35 × 6
+// kN/m and 1.5 × 10 kN/m placed by span: the shear force is most negative
+// just left of the support at 4 m with spans 1 and 2 loaded,
+// −(1.35·0.6·6 + 1.5·(37/60)·10)·4 = −56.44 kN, its mirror +56.44 kN just
+// right of the support at 8 m (continuous-beam coefficients 0.600 and
+// 0.617 for three equal spans, three-moment equation; AISC Manual, Beam
+// Diagrams and Formulas, from memory). The moment is continuous and says
+// no side: over the support at 4 m it is −(0.1·8.1 + (7/60)·15)·4² =
+// −40.96 kN·m with spans 1 and 2 loaded, and in the first span R²/(2w) at
+// x = R/w with spans 1 and 3 loaded, w = 23.1 kN/m on it, M_B =
+// −(0.1·8.1 + 0.05·15)·4² and R = w·4/2 + M_B/4 (the same coefficients).
+func TestEnvelopeSaysTheSideOfAJump(t *testing.T) {
+	p, err := storage.Load("../../testdata/three_span_pattern.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	r := casesResults(t, p)
+	const w, mB = 23.1e3, -(0.1*8.1e3 + 0.05*15e3) * 16
+	const rA, v = w*4/2 + mB/4, (1.35*0.6*6e3 + 1.5*37.0/60*10e3) * 4
+	want := map[string][2]GoverningJSON{ // quantity: largest, smallest
+		"shear_force":    {{Value: v, X: 8, Side: "right"}, {Value: -v, X: 4, Side: "left"}},
+		"bending_moment": {{Value: rA * rA / (2 * w), X: rA / w}, {Value: -(0.1*8.1e3 + 7.0/60*15e3) * 16, X: 4}},
+	}
+	for _, q := range r.Envelope.Quantities {
+		w, ok := want[q.Name]
+		if !ok {
+			continue
+		}
+		for k, g := range []GoverningJSON{q.Max, q.Min} {
+			if math.Abs(g.Value-w[k].Value) > 1e-9*math.Abs(w[k].Value) || math.Abs(g.X-w[k].X) > 1e-9 || g.Side != w[k].Side {
+				t.Errorf("%s: %.10g at x = %g m, side %q; want %.10g at %g m, side %q", q.Name, g.Value, g.X, g.Side, w[k].Value, w[k].X, w[k].Side)
+			}
+		}
+	}
+	var text bytes.Buffer
+	WriteCasesText(&text, "three_span_pattern.json", r, units.SI)
+	for _, line := range strings.Split(text.String(), "\n") {
+		if strings.HasPrefix(line, "  shear force ") && !(strings.Contains(line, "just right of 8.000 m") && strings.Contains(line, "just left of 4.000 m")) {
+			t.Errorf("the text does not say the sides of the shear force's extremes:\n%s", line)
+		}
+		if strings.HasPrefix(line, "  bending moment ") && strings.Contains(line, "just ") {
+			t.Errorf("the text gives a side of the moment, which does not jump:\n%s", line)
+		}
+	}
+	// The drawing's labels of the envelope's extremes say it too.
+	var drawing bytes.Buffer
+	if _, err := Export(context.Background(), &drawing, p, "svg", Options{Show: analysis.Show{Kind: analysis.ShowEnvelope}}); err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"just left of 4.000 m", "just right of 8.000 m"} {
+		if !strings.Contains(drawing.String(), want) {
+			t.Errorf("the drawing's labels lack %q", want)
+		}
+	}
+}
+
+// loaded_spans has one entry for each case the governing combination
+// places by span and that has loads to place, in the order of the file's
+// cases, as the checks' words name them: its spans loaded, [] for none
+// ("up on no span"). A case placed by span with nothing to place (its
+// self-weight, which always acts) got an entry "on no span"; and a case
+// loading no span came after those loading some, whatever their order.
+// Two spans of 4 m under an uplift "up" of 5 kN/m and a load "down" of
+// 10 kN/m, each placed by span, and a self-weight case placed by span:
+// the moment over the middle support is most negative with "down" on
+// both spans and "up" on none (it lowers it on either); invented loads.
+func TestLoadedSpansOfEveryCasePlacedBySpan(t *testing.T) {
+	p, err := storage.Load("../../testdata/two_span_cases.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	uniform := func(w float64) []fem.DistributedLoad {
+		return []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: w}, {X: 8, Intensity: w}}}}
+	}
+	m := &p.Model
+	m.Gravity = [2]float64{0, -fem.StandardGravity}
+	m.Segments[0].Material.Density = 7850
+	m.Cases = []fem.LoadCase{
+		{Name: "up", DistributedLoad: uniform(5e3), BySpan: true},
+		{Name: "down", DistributedLoad: uniform(-10e3), BySpan: true},
+		{Name: "weight", SelfWeight: true, BySpan: true},
+	}
+	m.Combinations = []fem.Combination{{Name: "all", Kind: fem.Strength, Factors: []fem.CaseFactor{{Case: 2, Factor: 1}, {Case: 1, Factor: 1}, {Case: 0, Factor: 1}}}}
+	r := casesResults(t, p)
+	var got GoverningJSON
+	for _, q := range r.Envelope.Quantities {
+		if q.Quantity == fem.QBendingMoment {
+			got = q.Min
+		}
+	}
+	want := []LoadedSpansJSON{{Case: "up", Spans: []int{}}, {Case: "down", Spans: []int{1, 2}}}
+	if !slices.EqualFunc(got.LoadedSpans, want, func(a, b LoadedSpansJSON) bool { return a.Case == b.Case && slices.Equal(a.Spans, b.Spans) }) {
+		t.Errorf("smallest moment %g N·m at x = %g m: loaded spans %+v, want %+v", got.Value, got.X, got.LoadedSpans, want)
+	}
+	if words := got.Arrangement(units.SI); words != "up on no span; down on spans 1, 2" {
+		t.Errorf("the arrangement reads %q", words)
 	}
 }
 

@@ -45,9 +45,10 @@ type TrainCombination struct {
 	// of the cases placed by span (Loaded); index is this one's.
 	solutions *fem.CombinationSolutions
 	index     int
-	// onLeft are the extremes at stations where the field jumps that are
-	// read just left of the station; the others are read on its right.
-	onLeft []sideRead
+	// sides are the sides of their stations that the extremes where the
+	// cases' field jumps are read on; the others are read on the right,
+	// where nothing jumps.
+	sides map[sideRead]fem.Side
 }
 
 // sideRead is the largest (upper) or smallest value of quantity q (an
@@ -198,27 +199,40 @@ func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem
 			// station itself.
 			leftBase := base(e.Stations, fem.Left, false)
 			onLeft, onRight := sides[0].Combine(tf.Factor, leftBase), sides[1].Combine(tf.Factor, right)
-			tc := TrainCombination{Combination: cb.Name, Factor: tf.Factor, Envelope: c, solutions: cs, index: ci}
+			tc := TrainCombination{Combination: cb.Name, Factor: plainZero(tf.Factor), Envelope: c, solutions: cs, index: ci, sides: map[sideRead]fem.Side{}}
 			for q := range moving.EnvelopeQuantities {
 				scale := 0.0
 				for s := range e.Stations {
 					scale = max(scale, math.Abs(right.Max[q][s]), math.Abs(right.Min[q][s]))
 				}
 				for s := range e.Stations {
-					if math.Abs(leftBase.Max[q][s]-right.Max[q][s]) <= 1e-12*scale && math.Abs(leftBase.Min[q][s]-right.Min[q][s]) <= 1e-12*scale {
+					jumpsMax, jumpsMin := math.Abs(leftBase.Max[q][s]-right.Max[q][s]) > 1e-12*scale, math.Abs(leftBase.Min[q][s]-right.Min[q][s]) > 1e-12*scale
+					if !jumpsMax && !jumpsMin {
 						continue // no jump: the station's own values hold
+					}
+					// side records the side an extreme is read on where its own field jumps.
+					side := func(upper, jumps, onTheRight bool) {
+						switch {
+						case !jumps:
+						case onTheRight:
+							tc.sides[sideRead{q, s, upper}] = fem.Right
+						default:
+							tc.sides[sideRead{q, s, upper}] = fem.Left
+						}
 					}
 					c.Max[q][s], c.MaxAt[q][s] = onLeft.Max[q][s], onLeft.MaxAt[q][s]
 					if onRight.Max[q][s] > c.Max[q][s] {
 						c.Max[q][s], c.MaxAt[q][s] = onRight.Max[q][s], onRight.MaxAt[q][s]
+						side(true, jumpsMax, true)
 					} else {
-						tc.onLeft = append(tc.onLeft, sideRead{q, s, true})
+						side(true, jumpsMax, false)
 					}
 					c.Min[q][s], c.MinAt[q][s] = onLeft.Min[q][s], onLeft.MinAt[q][s]
 					if onRight.Min[q][s] < c.Min[q][s] {
 						c.Min[q][s], c.MinAt[q][s] = onRight.Min[q][s], onRight.MinAt[q][s]
+						side(false, jumpsMin, true)
 					} else {
-						tc.onLeft = append(tc.onLeft, sideRead{q, s, false})
+						side(false, jumpsMin, false)
 					}
 				}
 			}
@@ -273,17 +287,24 @@ func arrangedSolutions(m *fem.Model) (*fem.CombinationSolutions, error) {
 
 // Loaded is the arrangement of the combination's cases placed by span
 // that gives its largest (upper) or smallest value of q at x, under the
-// train's governing position there: the spans loaded.
+// train's governing position there: the spans loaded, and the side of x
+// it is read on where the cases' field jumps there (Governing.Side).
 func (c TrainCombination) Loaded(q fem.Quantity, x float64, upper bool) fem.Governing {
-	side := fem.Right
-	if s := slices.Index(c.Envelope.Stations, x); s >= 0 && slices.Contains(c.onLeft, sideRead{slices.Index(moving.EnvelopeQuantities, q), s, upper}) {
-		side = fem.Left
+	var side fem.Side
+	if s := slices.Index(c.Envelope.Stations, x); s >= 0 {
+		side = c.sides[sideRead{slices.Index(moving.EnvelopeQuantities, q), s, upper}]
 	}
-	lo, hi := c.solutions.Arranged(c.index, []fem.Quantity{q}, x, side)
-	if upper {
-		return hi[0]
+	read := side
+	if read == 0 {
+		read = fem.Right // nothing jumps: either side
 	}
-	return lo[0]
+	lo, hi := c.solutions.Arranged(c.index, []fem.Quantity{q}, x, read)
+	g := hi[0]
+	if !upper {
+		g = lo[0]
+	}
+	g.Side = side
+	return g
 }
 
 func trainExtreme(e moving.Extreme) TrainExtreme {

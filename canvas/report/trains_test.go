@@ -578,3 +578,80 @@ func TestTrainTargetLeavesRoundOffOut(t *testing.T) {
 		t.Errorf("want the largest 10.00 kN and the smallest 0 kN:\n%s", out)
 	}
 }
+
+// A train a combination takes at factor 0 adds nothing to it: the
+// load-case envelope keeps the combination's cases for every extreme and
+// reaction, where the train's envelope ties with them to round-off; it
+// named the train's position for the bending stress and two reactions of
+// testdata/three_span_pattern.json, whose round-off came out above.
+func TestTrainAtFactorZeroGovernsNothing(t *testing.T) {
+	p, err := storage.Load("../../testdata/three_span_pattern.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	p.Trains = []moving.Train{{Name: "trolley", Axles: []moving.Axle{{Load: 12e3}}, Step: 0.5}}
+	p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 0, Factor: 0}}
+	src, err := Analyse(context.Background(), p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := CasesResults(src.Analysis)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r.WithTrains(src)
+	for _, q := range r.Envelope.Quantities {
+		for _, g := range []GoverningJSON{q.Max, q.Min} {
+			if g.Train != nil {
+				t.Errorf("%s: %g by %q with the train at %g m", q.Name, g.Value, g.Combination, g.Train.Front)
+			}
+		}
+	}
+	for _, re := range r.Envelope.Reactions {
+		for _, m := range []map[string]*GoverningJSON{re.Max, re.Min} {
+			for name, g := range m {
+				if g != nil && g.Train != nil {
+					t.Errorf("support %d, %s: %g by %q with the train at %g m", re.Support, name, g.Value, g.Combination, g.Train.Front)
+				}
+			}
+		}
+	}
+}
+
+// An extreme of the envelope that a combination with its train gives
+// where the cases' field jumps says the side it is read on, as the
+// cases' own do (TestEnvelopeSaysTheSideOfAJump): two axles of 30 kN at
+// 1 m in the strength combination of testdata/three_span_pattern.json at
+// 1.5 add to its shear force beside the inner supports, most just left of
+// 4 m and just right of 8 m (the mirror).
+func TestTrainExtremeSaysTheSideOfAJump(t *testing.T) {
+	p, err := storage.Load("../../testdata/three_span_pattern.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	p.Trains = []moving.Train{{Name: "trolley", Axles: []moving.Axle{{Load: 30e3}, {Load: 30e3, Spacing: 1}}, Step: 0.5}}
+	p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 0, Factor: 1.5}}
+	src, err := Analyse(context.Background(), p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := CasesResults(src.Analysis)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r.WithTrains(src)
+	for _, q := range r.Envelope.Quantities {
+		if q.Quantity != fem.QShearForce {
+			continue
+		}
+		for _, c := range []struct {
+			g    GoverningJSON
+			x    float64
+			side string
+		}{{q.Max, 8, "right"}, {q.Min, 4, "left"}} {
+			if c.g.Train == nil || c.g.X != c.x || c.g.Side != c.side {
+				t.Errorf("shear force %g at x = %g m, side %q, train %v; want the train's at %g m, side %q", c.g.Value, c.g.X, c.g.Side, c.g.Train, c.x, c.side)
+			}
+		}
+	}
+}

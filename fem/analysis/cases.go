@@ -760,12 +760,22 @@ func (c *Cases) judges(r check.Result, k int) bool {
 }
 
 // worse reports whether check a is worse than b: a worse status, or the
-// same with a value nearer its limit.
+// same with a value nearer its limit (its value where it has none) by more
+// than a tie (fem.Beyond); of two failed checks of equilibrium, the one
+// whose loads and reactions differ more, for their size. Passed checks of
+// equilibrium tie: each balances to round-off. A tie leaves b, which the
+// envelope found first: its check is named for the first combination in
+// the file's order among those that tie.
 func worse(a, b check.Result) bool {
-	if a.Status != b.Status {
+	switch {
+	case a.Status != b.Status:
 		return a.Status > b.Status
+	case a.Code == check.CodeEquilibrium && a.Status == check.Pass:
+		return false
+	case a.Code == check.CodeEquilibrium:
+		return fem.Beyond(imbalance(a), imbalance(b))
 	}
-	return ratio(a) > ratio(b)
+	return fem.Beyond(ratio(a), ratio(b))
 }
 
 func ratio(r check.Result) float64 {
@@ -773,6 +783,17 @@ func ratio(r check.Result) float64 {
 		return math.Abs(r.Value)
 	}
 	return math.Abs(r.Value / r.Limit)
+}
+
+// imbalance is how far a check of equilibrium is off: its applied loads
+// (Value) less the reactions' (Limit), as a share of the larger; 0 where
+// both are 0.
+func imbalance(r check.Result) float64 {
+	size := max(math.Abs(r.Value), math.Abs(r.Limit))
+	if size == 0 {
+		return 0
+	}
+	return math.Abs(r.Value-r.Limit) / size
 }
 
 // CaseSummary solves load case k alone and summarises it against its
