@@ -7,7 +7,6 @@ import (
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
-	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/layout"
 	"fyne.io/fyne/v2/widget"
 
@@ -445,11 +444,9 @@ func exampleOf(u units.System, q units.Kind) string {
 // showAddForm opens the Add form in a dialog; it closes once something is added.
 func (w *Window) showAddForm() {
 	f := newAddForm(w)
-	d := dialog.NewCustomWithoutButtons("Add to the member", f.content, w.win)
+	d, _ := w.newDialog("Add to the member", f.content, choice{label: "Cancel"},
+		choice{label: "Add", importance: widget.HighImportance, run: func() { f.submit() }, stays: true})
 	f.onAdded = d.Hide
-	add := newRingButton("Add", func() { f.submit() })
-	add.Importance = widget.HighImportance
-	d.SetButtons([]fyne.CanvasObject{widget.NewButton("Cancel", d.Hide), add})
 	d.Resize(fyne.NewSize(600, 470))
 	w.showDialog(d)
 	if e, ok := f.entries[f.fields[0].key]; ok {

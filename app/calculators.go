@@ -8,7 +8,6 @@ import (
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
-	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/layout"
 	"fyne.io/fyne/v2/widget"
 
@@ -131,7 +130,7 @@ func (w *Window) showSectionCalculator() {
 		compute()
 	})
 	choose.SetSelectedIndex(0)
-	fill := newRingButton("Fill A, I and c of the segment", func() {
+	fill := w.newDialogButton("Fill A, I and c of the segment", func() {
 		if propsErr != nil {
 			w.setStatus("section not filled: %v", propsErr)
 			return
@@ -152,7 +151,7 @@ func (w *Window) showSectionCalculator() {
 		container.NewBorder(nil, nil, widget.NewLabel("Segment"), nil, segment),
 		container.NewBorder(nil, nil, widget.NewLabel("Shape"), nil, choose),
 		form, widget.NewSeparator(), result, now, fill, note)
-	d := dialog.NewCustom("Section calculator", "Close", content, w.win)
+	d, _ := w.newDialog("Section calculator", content, choice{label: "Close"})
 	d.Resize(fyne.NewSize(560, 480))
 	w.showDialog(d)
 }
@@ -193,7 +192,7 @@ func (w *Window) showMaterials() {
 	}
 	strength := widget.NewLabel(fmt.Sprintf("The strength goes into the segment's allowable stress as it is; the stress check divides it by the safety factor, now %s (Study ▸ Check limits).", units.FormatNumber(factor)))
 	strength.Wrapping = fyne.TextWrapWord
-	fill := newRingButton("Fill E, density, α and strength of the segment", func() {
+	fill := w.newDialogButton("Fill E, density, α and strength of the segment", func() {
 		i := which()
 		if w.apply(fmt.Sprintf("make segment %d %s", i+1, chosen.Material.Name), func(m *fem.Model) error {
 			m.Segments[i].Material = chosen.Material
@@ -207,7 +206,7 @@ func (w *Window) showMaterials() {
 		container.NewBorder(nil, nil, widget.NewLabel("Segment"), nil, segment),
 		container.NewBorder(nil, nil, widget.NewLabel("Material"), nil, pick),
 		detail, strength, fill)
-	d := dialog.NewCustom("Typical materials", "Close", content, w.win)
+	d, _ := w.newDialog("Typical materials", content, choice{label: "Close"})
 	d.Resize(fyne.NewSize(620, 420))
 	w.showDialog(d)
 }

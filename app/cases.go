@@ -479,7 +479,7 @@ type combinationsDialog struct {
 	table        *combinationTable
 	scroll       *container.Scroll // holds the table
 	message      *widget.Label     // why the table was not kept
-	addRow, keep *widget.Button
+	addRow, keep *dialogButton
 }
 
 // newCombinationsDialog makes the dialog on the model's combinations; a
@@ -498,7 +498,7 @@ func (w *Window) newCombinationsDialog() *combinationsDialog {
 		cd.scroll.Refresh()
 		cd.scroll.ScrollToBottom()
 	}
-	cd.keep = widget.NewButton("Keep these combinations", func() {
+	cd.keep = w.newDialogButton("Keep these combinations", func() {
 		combos, err := t.combinations()
 		if err == nil {
 			err = w.changeCases("edit the combinations", w.editCase, func(m *fem.Model) error {
@@ -513,10 +513,10 @@ func (w *Window) newCombinationsDialog() *combinationsDialog {
 		cd.message.SetText("")
 		cd.dialog.Hide()
 	})
-	cd.addRow = widget.NewButton("Add a row", func() { t.addRow(fem.Combination{Kind: fem.Strength}); added() })
+	cd.addRow = w.newDialogButton("Add a row", func() { t.addRow(fem.Combination{Kind: fem.Strength}); added() })
 	body := container.NewBorder(note, container.NewVBox(cd.message, container.NewHBox(
-		cd.addRow, widget.NewButton("Add typical templates", func() { t.addTemplates(); added() }), cd.keep)), nil, nil, cd.scroll)
-	cd.dialog = dialog.NewCustom("Combinations", "Cancel", body, w.win)
+		cd.addRow, w.newDialogButton("Add typical templates", func() { t.addTemplates(); added() }), cd.keep)), nil, nil, cd.scroll)
+	cd.dialog, _ = w.newDialog("Combinations", body, choice{label: "Cancel"})
 	cd.dialog.Resize(fyne.NewSize(760, 560)) // fits a 1280 × 720 screen
 	return cd
 }

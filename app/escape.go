@@ -39,9 +39,6 @@ func (s *dialogStack) dismiss() bool {
 // through it, so that Escape closes it.
 func (w *Window) showDialog(d dialog.Dialog) { w.dialogs.show(d) }
 
-// showError shows err in a dialog.
-func (w *Window) showError(err error) { w.showDialog(dialog.NewError(err, w.win)) }
-
 // escape is what Escape does in an entry of the window: it closes the
 // dialog on top as its Cancel button does, leaving what was typed there
 // unused, or, with no dialog open (in the properties panel), gives the

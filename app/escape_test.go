@@ -2,13 +2,20 @@ package app
 
 import (
 	"errors"
+	"fmt"
+	"path/filepath"
 	"reflect"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
 
 	"fyne.io/fyne/v2"
+	fynecanvas "fyne.io/fyne/v2/canvas"
+	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/test"
+	"fyne.io/fyne/v2/theme"
+	"fyne.io/fyne/v2/widget"
 
 	"stave/fem"
 )
@@ -113,4 +120,350 @@ func dialogOnTwoSpans(t *testing.T, name string, show func(w *Window)) (*Window,
 		t.Fatalf("%s: no dialog showing", name)
 	}
 	return w, c
+}
+
+// buttonIn is o as a button, or nil when it is none.
+func buttonIn(o fyne.CanvasObject) *widget.Button {
+	switch b := o.(type) {
+	case *widget.Button:
+		return b
+	case *ringButton:
+		return &b.Button
+	case *dialogButton:
+		return &b.Button
+	}
+	return nil
+}
+
+// tabOrder is every widget Tab (fyne's FocusNext) reaches on c from no
+// focus, in the order it reaches them.
+func tabOrder(c fyne.Canvas) []fyne.Focusable {
+	c.Unfocus()
+	var order []fyne.Focusable
+	for range 500 {
+		c.FocusNext()
+		f := c.Focused()
+		if f == nil || slices.Contains(order, f) {
+			break
+		}
+		order = append(order, f)
+	}
+	return order
+}
+
+// tabTo presses Tab on c from no focus until f has the focus.
+func tabTo(t *testing.T, c fyne.Canvas, f fyne.Focusable) {
+	t.Helper()
+	c.Unfocus()
+	for range 500 {
+		c.FocusNext()
+		if c.Focused() == f {
+			return
+		}
+	}
+	t.Fatalf("Tab never reaches %s", nameOf(f.(fyne.CanvasObject)))
+}
+
+// escapeDialogs are the dialogs of the window, one of each kind: forms,
+// custom dialogs with a Close or Cancel button and buttons of their own,
+// questions, a confirmation, an error and a message. show opens the
+// dialog and types into it what its affirmative button would take, so
+// that the button, pressed, would change the project or, where it does
+// not, makes affirmed true.
+var escapeDialogs = []struct {
+	name     string
+	show     func(t *testing.T, w *Window)
+	affirmed func(w *Window) bool
+}{
+	{"check limits", func(t *testing.T, w *Window) {
+		w.showCheckLimits()
+		_, entries, _, _ := dialogWidgets(t, w)
+		entries[0].SetText("123")
+	}, nil},
+	{"add a load case", func(_ *testing.T, w *Window) { w.addCase() }, nil},
+	{"rename the load case", func(t *testing.T, w *Window) {
+		w.renameCase()
+		_, entries, _, _ := dialogWidgets(t, w)
+		entries[0].SetText("renamed")
+	}, nil},
+	{"adaptive refinement", func(_ *testing.T, w *Window) { w.runAdaptive() },
+		func(w *Window) bool { return w.study != 0 || w.adaptNodes != nil }},
+	{"the Add form", func(t *testing.T, w *Window) {
+		w.showAddForm()
+		_, entries, _, _ := dialogWidgets(t, w)
+		entries[0].SetText("2 m") // the support's position comes first
+	}, nil},
+	{"the notes", func(t *testing.T, w *Window) {
+		w.showNotesForm()
+		_, entries, _, _ := dialogWidgets(t, w)
+		entries[0].SetText("a note Escape must not keep")
+	}, nil},
+	{"section calculator", func(_ *testing.T, w *Window) { w.showSectionCalculator() }, nil},
+	{"typical materials", func(t *testing.T, w *Window) {
+		w.showMaterials()
+		selects, _, _, _ := dialogWidgets(t, w)
+		m := selects[len(selects)-1] // the material, after the segment
+		m.SetSelectedIndex(len(m.Options) - 1)
+	}, nil},
+	{"combinations", func(t *testing.T, w *Window) {
+		w.showCombinations()
+		_, _, buttons, _ := dialogWidgets(t, w)
+		test.Tap(buttonNamed(t, buttons, "Add typical templates"))
+	}, nil},
+	{"nodal loads table", func(_ *testing.T, w *Window) { w.showNodalTable() }, nil},
+	{"an error", func(_ *testing.T, w *Window) { w.showError(errors.New("something went wrong")) }, nil},
+	{"unsaved changes", func(t *testing.T, w *Window) {
+		w.path = filepath.Join(t.TempDir(), "member.json") // so that Save saves at once, then starts the new member
+		w.apply("move a support", func(m *fem.Model) error { m.Supports[0].X += 0.5; return nil })
+		w.newProject()
+	}, func(w *Window) bool { return !strings.Contains(w.status.Text, "kept working") }},
+	{"saved but will not open", func(_ *testing.T, w *Window) {
+		w.warnUnloadable("member.json", errors.New("something is wrong"), func() { w.newProject() })
+	}, nil},
+	{"saved but will not open, informing", func(_ *testing.T, w *Window) {
+		w.warnUnloadable("member.json", errors.New("something is wrong"), nil)
+	}, nil},
+}
+
+// Escape with the focus on any button of a dialog, where Tab puts it,
+// closes the dialog as its Cancel or Close button does: the focused
+// button took the key and ignored it, so Escape did nothing after Tab.
+func TestEscapeOnAFocusedButton(t *testing.T) {
+	for _, d := range escapeDialogs {
+		for k := 0; ; k++ {
+			w, c := dialogOnTwoSpans(t, d.name, func(w *Window) { d.show(t, w) })
+			var buttons []fyne.Focusable
+			for _, f := range tabOrder(c) {
+				if buttonIn(f.(fyne.CanvasObject)) != nil {
+					buttons = append(buttons, f)
+				}
+			}
+			if k == 0 && len(buttons) == 0 {
+				t.Fatalf("%s: Tab reaches no button", d.name)
+			}
+			if k >= len(buttons) {
+				break
+			}
+			name := nameOf(buttons[k].(fyne.CanvasObject))
+			tabTo(t, c, buttons[k])
+			before := cloneProject(w.project)
+			typeToFocused(t, w, fyne.KeyEscape)
+			if c.Overlays().Top() != nil {
+				t.Errorf("%s: Escape on its %s left the dialog open", d.name, name)
+			}
+			if !reflect.DeepEqual(w.project, before) || d.affirmed != nil && d.affirmed(w) {
+				t.Errorf("%s: Escape on its %s did what the dialog's affirmative button does", d.name, name)
+			}
+			w.cancelStudy()
+		}
+	}
+}
+
+// Escape on a button of a dialog opened over another closes the top one
+// only; the one below stays open, its Cancel not made, and takes Escape
+// on its own buttons in turn.
+func TestEscapeOnAFocusedButtonClosesTheTopDialogOnly(t *testing.T) {
+	for _, d := range escapeDialogs {
+		w, c := dialogOnTwoSpans(t, d.name, func(w *Window) { d.show(t, w) })
+		below := c.Overlays().Top()
+		w.showError(errors.New("a second dialog, over the first"))
+		top := c.Overlays().Top()
+		if top == below {
+			t.Fatalf("%s: the error shows no dialog of its own", d.name)
+		}
+		before := cloneProject(w.project)
+		tabToButton(t, c, "OK")
+		typeToFocused(t, w, fyne.KeyEscape)
+		if got := c.Overlays().Top(); got != below || len(c.Overlays().List()) != 1 {
+			t.Errorf("%s: Escape on the OK of the error over it left %d dialogs, the top one the first %v, want the first alone",
+				d.name, len(c.Overlays().List()), got == below)
+			continue
+		}
+		if !reflect.DeepEqual(w.project, before) {
+			t.Errorf("%s: Escape on the error over it changed the project", d.name)
+		}
+		if d.name == "unsaved changes" && strings.Contains(w.status.Text, "kept working") {
+			t.Errorf("%s: Escape on the error over it cancelled the question below too", d.name)
+		}
+		tabToButton(t, c, "")
+		typeToFocused(t, w, fyne.KeyEscape)
+		if c.Overlays().Top() != nil {
+			t.Errorf("%s: after the error, Escape on its own button left it open", d.name)
+		}
+		if !reflect.DeepEqual(w.project, before) || d.affirmed != nil && d.affirmed(w) {
+			t.Errorf("%s: Escape on its own button, after the error, did what its affirmative button does", d.name)
+		}
+		w.cancelStudy()
+	}
+}
+
+// tabToButton presses Tab on c from no focus until a button reading text
+// (any button for "") has the focus.
+func tabToButton(t *testing.T, c fyne.Canvas, text string) {
+	t.Helper()
+	for _, f := range tabOrder(c) {
+		if b := buttonIn(f.(fyne.CanvasObject)); b != nil && (text == "" || b.Text == text) {
+			tabTo(t, c, f)
+			return
+		}
+	}
+	t.Fatalf("Tab never reaches a button %q", text)
+}
+
+// Enter and Space on a focused button of a dialog press it: Space as
+// fyne's button takes it, Enter (Return, or Enter on the keypad) as
+// desktop dialogs commonly take it (common practice), where fyne's button
+// ignored it.
+func TestEnterAndSpacePressAFocusedDialogButton(t *testing.T) {
+	presses := []struct {
+		dialog, button string
+		show           func(t *testing.T, w *Window)
+		pressed        func(w *Window) bool
+	}{
+		{"check limits", "Apply", escapeDialogs[0].show, func(w *Window) bool {
+			return w.project.View.DeflectionLimit == 123 && w.win.Canvas().Overlays().Top() == nil
+		}},
+		{"check limits", "Cancel", escapeDialogs[0].show, func(w *Window) bool {
+			return w.project.View.DeflectionLimit != 123 && w.win.Canvas().Overlays().Top() == nil
+		}},
+		{"unsaved changes", "Discard changes", nil, func(w *Window) bool { return len(w.Model().Segments) == 0 }},
+		{"combinations", "Add a row", nil, func(w *Window) bool {
+			_, entries, _, _ := dialogWidgets(t, w)
+			return len(entries) > 4*(2+len(w.Model().Cases)) // beyond the 4 rows the file's 2 combinations and the 2 templates make
+		}},
+		{"an error", "OK", nil, func(w *Window) bool { return w.win.Canvas().Overlays().Top() == nil }},
+	}
+	for _, p := range presses {
+		show := p.show
+		for _, d := range escapeDialogs {
+			if show == nil && d.name == p.dialog {
+				show = d.show
+			}
+		}
+		for _, key := range []fyne.KeyName{fyne.KeySpace, fyne.KeyReturn, fyne.KeyEnter} {
+			w, c := dialogOnTwoSpans(t, p.dialog, func(w *Window) { show(t, w) })
+			tabToButton(t, c, p.button)
+			typeToFocused(t, w, key)
+			if !p.pressed(w) {
+				t.Errorf("%s: %s on its focused button “%s” did not press it", p.dialog, key, p.button)
+			}
+		}
+	}
+}
+
+// A form's confirm button is disabled while a field fails its validation,
+// as in fyne's form dialog, and Enter in the field does not confirm it then.
+func TestFormConfirmWaitsForValidFields(t *testing.T) {
+	w, _ := newTestWindow(t, demoProject(t))
+	name := newEscEntry()
+	name.Validator = func(s string) error {
+		if strings.TrimSpace(s) == "" {
+			return errors.New("type a name")
+		}
+		return nil
+	}
+	var answers []bool
+	w.showForm("Name it", "Name", []*widget.FormItem{widget.NewFormItem("Name", name)}, func(ok bool) { answers = append(answers, ok) })
+	_, _, buttons, _ := dialogWidgets(t, w)
+	confirm := buttonNamed(t, buttons, "Name")
+	if !confirm.Disabled() {
+		t.Error("the confirm button is enabled with the name empty")
+	}
+	name.TypedKey(&fyne.KeyEvent{Name: fyne.KeyReturn})
+	if len(answers) != 0 || w.win.Canvas().Overlays().Top() == nil {
+		t.Errorf("Enter with the name empty closed the form (%v)", answers)
+	}
+	name.SetText("beam")
+	if confirm.Disabled() {
+		t.Error("the confirm button stays disabled with a name typed")
+	}
+	name.SetText(" ")
+	if !confirm.Disabled() {
+		t.Error("the confirm button is enabled again with the name blank")
+	}
+	name.SetText("beam")
+	name.TypedKey(&fyne.KeyEvent{Name: fyne.KeyReturn})
+	if !slices.Equal(answers, []bool{true}) || w.win.Canvas().Overlays().Top() != nil {
+		t.Errorf("Enter with a name typed: the form answered %v and is open %v, want [true] and closed",
+			answers, w.win.Canvas().Overlays().Top() != nil)
+	}
+}
+
+// look is how a dialog looks: its title, the icon at its top right (""
+// for none), its buttons from left to right and its size.
+type look struct {
+	title, icon string
+	buttons     []string // text, icon, importance and whether enabled
+	size        fyne.Size
+}
+
+// lookOf is the look of the dialog on top of c, laid out as fyne's
+// dialogLayout lays it out (dialog/base.go, v2.7): the icon, a
+// background, the content, the buttons and the title.
+func lookOf(t *testing.T, c fyne.Canvas) look {
+	t.Helper()
+	p, ok := c.Overlays().Top().(*widget.PopUp)
+	if !ok {
+		t.Fatalf("the top of the window is %T, not a dialog", c.Overlays().Top())
+	}
+	parts := p.Content.(*fyne.Container).Objects
+	l := look{title: parts[4].(*widget.Label).Text, size: p.Content.Size()}
+	if img, ok := parts[0].(*fynecanvas.Image); ok {
+		l.icon = img.Resource.Name()
+	}
+	for _, o := range test.LaidOutObjects(parts[3]) {
+		if b := buttonIn(o); b != nil {
+			icon := ""
+			if b.Icon != nil {
+				icon = b.Icon.Name()
+			}
+			l.buttons = append(l.buttons, fmt.Sprintf("%s|%s|%d|%v", b.Text, icon, b.Importance, !b.Disabled()))
+		}
+	}
+	return l
+}
+
+// The dialogs whose buttons the window now makes itself look as fyne's
+// own dialogs of their kind did: title, icon, the buttons' text, icon,
+// importance and state, and size, on the same window.
+func TestDialogsLookAsFynesOwn(t *testing.T) {
+	const message = "something went wrong in a message long enough to wrap: the file member.json, line 12, names a support past the end of the member"
+	nameItems := func() []*widget.FormItem {
+		e := newEscEntry()
+		e.SetText("case 3")
+		return []*widget.FormItem{widget.NewFormItem("Name", e)}
+	}
+	content := func() fyne.CanvasObject { return widget.NewLabel("The member was saved, so no work is lost.") }
+	for _, c := range []struct {
+		name       string
+		ours, fyne func(w *Window)
+	}{
+		{"an error", func(w *Window) { w.showError(errors.New(message)) },
+			func(w *Window) { dialog.ShowError(errors.New(message), w.win) }},
+		{"a message", func(w *Window) { w.showMessage("Saved", message, theme.InfoIcon()) },
+			func(w *Window) { dialog.ShowInformation("Saved", message, w.win) }},
+		{"a form", func(w *Window) { w.showForm("Add a load case", "Add", nameItems(), func(bool) {}) },
+			func(w *Window) {
+				dialog.ShowForm("Add a load case", "Add", "Cancel", nameItems(), func(bool) {}, w.win)
+			}},
+		{"a confirmation", func(w *Window) {
+			d, _ := w.newDialog("Saved", content(), choice{label: "Stay and fix it", icon: theme.CancelIcon()},
+				choice{label: "Go on anyway", icon: theme.ConfirmIcon(), importance: widget.HighImportance})
+			w.showDialog(d)
+		}, func(w *Window) {
+			dialog.ShowCustomConfirm("Saved", "Go on anyway", "Stay and fix it", content(), nil, w.win)
+		}},
+		{"a dialog to close", func(w *Window) {
+			d, _ := w.newDialog("Typical materials", content(), choice{label: "Close"})
+			w.showDialog(d)
+		}, func(w *Window) { dialog.ShowCustom("Typical materials", "Close", content(), w.win) }},
+	} {
+		ours, _ := newTestWindow(t, demoProject(t))
+		c.ours(ours)
+		theirs, _ := newTestWindow(t, demoProject(t))
+		c.fyne(theirs)
+		if got, want := lookOf(t, ours.win.Canvas()), lookOf(t, theirs.win.Canvas()); !reflect.DeepEqual(got, want) {
+			t.Errorf("%s looks as\n%+v, fyne's as\n%+v", c.name, got, want)
+		}
+	}
 }

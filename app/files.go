@@ -13,6 +13,7 @@ import (
 	fyneapp "fyne.io/fyne/v2/app"
 	"fyne.io/fyne/v2/dialog"
 	storagefilter "fyne.io/fyne/v2/storage"
+	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 	native "github.com/sqweek/dialog"
 
@@ -172,44 +173,20 @@ func (w *Window) confirmDiscard(action string, then func()) {
 	label := widget.NewLabel(fmt.Sprintf("The member has changes that are not saved. Save them before you %s?", action))
 	label.Wrapping = fyne.TextWrapWord
 	w.ask("Unsaved changes", label,
-		choice{"Cancel", widget.MediumImportance, func() { w.setStatus("kept working: nothing was discarded") }},
-		choice{"Discard changes", widget.DangerImportance, func() {
+		choice{label: "Cancel", run: func() { w.setStatus("kept working: nothing was discarded") }},
+		choice{label: "Discard changes", importance: widget.DangerImportance, run: func() {
 			w.discardAutosave()
 			then()
 		}},
-		choice{"Save", widget.HighImportance, func() { w.save(then) }},
+		choice{label: "Save", importance: widget.HighImportance, run: func() { w.save(then) }},
 	)
-}
-
-// choice is one button of a question.
-type choice struct {
-	label      string
-	importance widget.Importance
-	run        func()
 }
 
 // ask shows a question whose buttons close it and run their choice.
 // The first choice is the cautious one (Cancel, Not now), which Escape
-// makes too.
+// makes too (newDialog).
 func (w *Window) ask(title string, content fyne.CanvasObject, choices ...choice) {
-	d := dialog.NewCustomWithoutButtons(title, content, w.win)
-	chosen := false
-	d.SetOnClosed(func() {
-		if !chosen {
-			choices[0].run()
-		}
-	})
-	buttons := make([]fyne.CanvasObject, len(choices))
-	for i, c := range choices {
-		b := newRingButton(c.label, func() {
-			chosen = true
-			d.Hide()
-			c.run()
-		})
-		b.Importance = c.importance
-		buttons[i] = b
-	}
-	d.SetButtons(buttons)
+	d, _ := w.newDialog(title, content, choices...)
 	d.Resize(fyne.NewSize(min(560, d.MinSize().Width+80), d.MinSize().Height))
 	w.showDialog(d)
 }
@@ -333,14 +310,13 @@ func (w *Window) warnUnloadable(path string, err error, then func()) {
 	const title = "Saved, but it will not open as it is"
 	msg := "The member was saved, so no work is lost, but " + err.Error() + "\n" + fix
 	if then == nil {
-		w.showDialog(dialog.NewInformation(title, msg, w.win))
+		w.showMessage(title, msg, theme.InfoIcon())
 		return
 	}
-	w.showDialog(dialog.NewCustomConfirm(title, "Go on anyway", "Stay and fix it", widget.NewLabel(msg), func(goOn bool) {
-		if goOn {
-			then()
-		}
-	}, w.win))
+	d, _ := w.newDialog(title, widget.NewLabel(msg),
+		choice{label: "Stay and fix it", icon: theme.CancelIcon()},
+		choice{label: "Go on anyway", icon: theme.ConfirmIcon(), importance: widget.HighImportance, run: then})
+	w.showDialog(d)
 }
 
 // addRecent puts path at the top of the recent files.
@@ -452,17 +428,17 @@ func (w *Window) offerRecovery() {
 		w.updateTitle()
 	}
 	w.ask("Restore unsaved work?", label,
-		choice{"Not now", widget.MediumImportance, func() {
+		choice{label: "Not now", run: func() {
 			// There is one autosave: this window's own would replace the copy kept.
 			w.earlierKept = true
 			w.setStatus("the copy stays for the next start; autosave is paused meanwhile, so save your work (Ctrl+S) to keep it")
 		}},
-		choice{"Discard", widget.DangerImportance, func() {
+		choice{label: "Discard", importance: widget.DangerImportance, run: func() {
 			if err := storage.ClearRecovery(w.recoveryDir); err != nil {
 				w.setStatus("%v", err)
 			}
 		}},
-		choice{"Save as…", widget.MediumImportance, func() {
+		choice{label: "Save as…", run: func() {
 			w.chooseFile(true, "Save the restored member as", "Stave member", "json", func(path string) {
 				if err := storage.Save(path, r.Project); err != nil {
 					w.showError(fmt.Errorf("the restored member was not saved: %w", err))
@@ -474,7 +450,7 @@ func (w *Window) offerRecovery() {
 				w.setStatus("saved the restored work as %s", path)
 			})
 		}},
-		choice{"Restore", widget.HighImportance, func() {
+		choice{label: "Restore", importance: widget.HighImportance, run: func() {
 			restore(r.Source, false)
 			w.setStatus("restored unsaved work; save it to keep it")
 		}},

@@ -40,12 +40,20 @@ type ringButton struct {
 }
 
 func newRingButton(label string, tapped func()) *ringButton {
-	b := &ringButton{ring: fynecanvas.NewRectangle(color.Transparent)}
+	b := &ringButton{}
+	b.setUp(label, tapped)
+	b.ExtendBaseWidget(b)
+	return b
+}
+
+// setUp makes b a button reading label that runs tapped, with its ring.
+// The caller extends the base widget with b, or with the widget that
+// holds b (dialogButton), which fyne then draws and sends the keys to.
+func (b *ringButton) setUp(label string, tapped func()) {
+	b.ring = fynecanvas.NewRectangle(color.Transparent)
 	b.Text, b.OnTapped = label, tapped
 	b.ring.StrokeWidth = 2
 	b.ring.CornerRadius = theme.InputRadiusSize()
-	b.ExtendBaseWidget(b)
-	return b
 }
 
 // CreateRenderer is part of fyne.Widget: the button's own, with the ring

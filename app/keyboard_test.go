@@ -67,13 +67,8 @@ func focusButton(t *testing.T, c fyne.Canvas, text string) {
 	c.Unfocus()
 	for range 500 {
 		c.FocusNext()
-		switch b := c.Focused().(type) {
-		case *widget.Button:
-			if b.Text == text {
-				return
-			}
-		case *ringButton:
-			if b.Text == text {
+		if f, ok := c.Focused().(fyne.CanvasObject); ok {
+			if b := buttonIn(f); b != nil && b.Text == text {
 				return
 			}
 		}
@@ -292,7 +287,7 @@ func TestDialogsStrongButtonsShowTheFocus(t *testing.T) {
 		strong := 0
 		for _, o := range test.LaidOutObjects(top) {
 			switch b := o.(type) {
-			case *ringButton:
+			case *ringButton, *dialogButton:
 				strong++
 			case *widget.Button:
 				if b.Importance == widget.HighImportance || b.Importance == widget.DangerImportance {

@@ -7,9 +7,7 @@ import (
 	"strings"
 
 	"fyne.io/fyne/v2"
-	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/driver/desktop"
-	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
 	"stave/fem"
@@ -61,29 +59,6 @@ func (w *Window) guarded(f func()) func() {
 			f()
 		}
 	}
-}
-
-// showForm shows a dialog of a few fields, as dialog.NewForm makes it,
-// with the focus in its first field; Enter in any field confirms it, as
-// the confirm button does (done then gets true), as Enter does in the Add
-// form and the properties, and Escape cancels it.
-func (w *Window) showForm(title, confirm string, items []*widget.FormItem, done func(bool)) *dialog.FormDialog {
-	d := dialog.NewForm(title, confirm, "Cancel", items, done, w.win)
-	var first *escEntry
-	for _, it := range items {
-		if e, ok := it.Widget.(*escEntry); ok {
-			e.OnSubmitted = func(string) { d.Submit() }
-			e.OnEscape = w.escape
-			if first == nil {
-				first = e
-			}
-		}
-	}
-	w.showDialog(d)
-	if first != nil {
-		w.win.Canvas().Focus(first)
-	}
-	return d
 }
 
 // item is a menu item that runs run while no dialog is open, with its key shown.

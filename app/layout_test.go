@@ -54,9 +54,10 @@ func TestStripFitsALaptopScreen(t *testing.T) {
 
 // nameOf is the text of a widget, to name it in a failure.
 func nameOf(o fyne.CanvasObject) string {
+	if b := buttonIn(o); b != nil {
+		return "button " + quoteOr(b.Text, "(icon only)")
+	}
 	switch v := o.(type) {
-	case *widget.Button:
-		return "button " + quoteOr(v.Text, "(icon only)")
 	case *widget.Check:
 		return "switch " + quoteOr(v.Text, "")
 	case *widget.Select:

@@ -6,7 +6,6 @@ import (
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
-	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
@@ -222,7 +221,7 @@ func (w *Window) showNodalTable() {
 	note := widget.NewLabel(fmt.Sprintf("%d nodes of %d %s elements. Consistent loads keep the resultant and its moment; lumped loads keep the forces only.",
 		len(nl.Nodes), len(nl.Elements), kinds))
 	note.Wrapping = fyne.TextWrapWord
-	d := dialog.NewCustom("Nodal loads of the line loads and self-weight", "Close", container.NewBorder(note, nil, nil, nil, t), w.win)
+	d, _ := w.newDialog("Nodal loads of the line loads and self-weight", container.NewBorder(note, nil, nil, nil, t), choice{label: "Close"})
 	d.Resize(fyne.NewSize(960, 520))
 	w.showDialog(d)
 }

@@ -106,7 +106,7 @@ func (f *notesForm) notes(p storage.Project) (storage.Notes, bool) {
 func (w *Window) showNotesForm() {
 	f := newNotesForm(w.project.Notes)
 	var d *dialog.CustomDialog
-	save := newRingButton("Keep these notes", func() {
+	keep := func() {
 		n, ok := f.notes(cloneProject(w.project))
 		if !ok {
 			return
@@ -117,10 +117,9 @@ func (w *Window) showNotesForm() {
 			w.updateTitle()
 			w.setStatus("notes changed: they are saved with the member and head the calculation sheet")
 		}
-	})
-	save.Importance = widget.HighImportance
-	d = dialog.NewCustomWithoutButtons("Notes for the calculation sheet", f.content, w.win)
-	d.SetButtons([]fyne.CanvasObject{widget.NewButton("Cancel", func() { d.Hide() }), save})
+	}
+	d, _ = w.newDialog("Notes for the calculation sheet", f.content, choice{label: "Cancel"},
+		choice{label: "Keep these notes", importance: widget.HighImportance, run: keep, stays: true})
 	d.Resize(fyne.NewSize(620, 460))
 	for _, e := range f.entries {
 		e.OnEscape = w.escape

@@ -13,7 +13,6 @@ import (
 	"fyne.io/fyne/v2"
 	fynecanvas "fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/container"
-	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
@@ -145,7 +144,7 @@ func (w *Window) showConvergence() {
 	content := container.NewBorder(
 		wrapped("Relative errors against the exact solution on meshes with 1, 2, 4, … elements between key points."),
 		nil, nil, right, left)
-	d := dialog.NewCustom("Convergence study", "Close", content, w.win)
+	d, _ := w.newDialog("Convergence study", content, choice{label: "Close"})
 	d.Resize(fyne.NewSize(1160, 520))
 	w.showDialog(d)
 }
@@ -217,17 +216,12 @@ func (w *Window) adaptiveDone(m fem.Model, target float64, v study.Versus, err e
 	}
 	grid := widget.NewTextGrid()
 	grid.SetText(text)
-	d := dialog.NewCustom("Adaptive refinement", "Close", container.NewScroll(grid), w.win)
+	d, _ := w.newDialog("Adaptive refinement", container.NewScroll(grid), choice{label: "Close"})
 	// As wide as the table's widest line, as far as the window allows:
 	// at 760 px the comparison with uniform refinement ran out of sight.
 	d.Resize(fyne.NewSize(min(grid.MinSize().Width+dialogPadWidth+theme.InnerPadding(), w.win.Canvas().Size().Width), 480))
 	w.showDialog(d)
 }
-
-// dialogPadWidth is the width, px, a dialog takes beside its content, to
-// which its pop-up adds the theme's inner padding (fyne's dialog padWidth
-// and popUpBaseRenderer.padding, v2.7).
-const dialogPadWidth = 32
 
 // adaptiveText tabulates the iterations and the comparison with uniform
 // refinement, as the command line prints them, under the target.

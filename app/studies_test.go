@@ -91,12 +91,12 @@ func dialogWidgets(t *testing.T, w *Window) (selects []*widget.Select, entries [
 			entries = append(entries, v)
 		case *escEntry:
 			entries = append(entries, &v.Entry)
-		case *widget.Button:
-			buttons = append(buttons, v)
-		case *ringButton:
-			buttons = append(buttons, &v.Button)
 		case *widget.Label:
 			labels = append(labels, v)
+		default:
+			if b := buttonIn(o); b != nil {
+				buttons = append(buttons, b)
+			}
 		}
 	}
 	return
