@@ -738,14 +738,17 @@ func TestSummaryDisplacementsBesideAWeakOverhang(t *testing.T) {
 // a = 1 m beyond it dropping a further qL³/(6EI)·a (statics: it carries
 // nothing); a pull P along the member bends nothing (linear theory) and
 // stretches it P·(L + a)/(EA) at its free end (Gere & Goodno, axially
-// loaded members); a force on a pinned support goes straight into it
-// (statics), and the member does not move at all.
+// loaded members), as far as a pull P at x = L stretches it, P·L/(EA),
+// however thin the unloaded overhang beyond (A = 4e-20 m²); a force on a
+// pinned support goes straight into it (statics), and the member does not
+// move at all.
 func TestSummaryDisplacementRoundOffBesideAWeakOverhang(t *testing.T) {
 	const E, I, A, L, a, q, P = 200e9, 8e-6, 4e-3, 4.0, 1.0, 10e3, 50e3
 	section := func(I float64) Section { return Section{Area: A, SecondMoment: I, FibreDistance: 0.1} }
 	tip := q * L * L * L / (6 * E * I)
 	for _, c := range []struct {
 		name     string
+		area     float64 // the overhang's, m²
 		supports []Support
 		loads    func(m *Model)
 		// want are the exact extremes, largest and smallest, with where
@@ -753,21 +756,24 @@ func TestSummaryDisplacementRoundOffBesideAWeakOverhang(t *testing.T) {
 		// extreme is 0 in both columns.
 		want map[Quantity][4]float64
 	}{
-		{"cantilever under a uniform load", []Support{{X: 0, Kind: Fixed}},
+		{"cantilever under a uniform load", A, []Support{{X: 0, Kind: Fixed}},
 			func(m *Model) {
 				m.DistributedLoad = []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -q}, {L, -q}}}}
 			},
 			map[Quantity][4]float64{QDeflection: {0, 0, -(q*L*L*L*L/(8*E*I) + tip*a), L + a}, QRotation: {0, 0, -tip, L}}},
-		{"pull along the member", []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+		{"pull along the member", A, []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
 			func(m *Model) { m.PointLoads = []PointLoad{{X: L + a, Axial: P}} },
 			map[Quantity][4]float64{QAxialDisplacement: {P * (L + a) / (E * A), L + a, 0, 0}}},
-		{"force on a support", []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+		{"pull beside a thin unloaded overhang", 4e-20, []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+			func(m *Model) { m.PointLoads = []PointLoad{{X: L, Axial: P}} },
+			map[Quantity][4]float64{QAxialDisplacement: {P * L / (E * A), L, 0, 0}}},
+		{"force on a support", A, []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
 			func(m *Model) { m.PointLoads = []PointLoad{{X: 0, Transverse: -P}} },
 			nil},
 	} {
 		m := &Model{
 			Segments: []Segment{{Start: 0, End: L, Section: section(I), Material: Material{Elastic: E}},
-				{Start: L, End: L + a, Section: section(8e-20), Material: Material{Elastic: E}}},
+				{Start: L, End: L + a, Section: Section{Area: c.area, SecondMoment: 8e-20, FibreDistance: 0.1}, Material: Material{Elastic: E}}},
 			Supports: c.supports,
 			Mesh:     MeshSettings{Elements: 8},
 		}
