@@ -699,7 +699,7 @@ func (cs *CombinationSolutions) Envelope() *Envelope {
 		w.walkElements()
 	}
 	qs := w.quantities()
-	zeroRoundOff(qs, slices.Concat(cs.Fixed, cs.Shares))
+	zeroRoundOff(qs, &cs.Fixed[0].Model, slices.Concat(cs.fixedFloors(), cs.shareFloors()))
 	cs.readSides(qs, w.exact)
 	return &Envelope{Exact: w.exact, Quantities: qs, Reactions: cs.reactionEnvelope(), Foundations: cs.foundationEnvelope()}
 }
@@ -770,20 +770,32 @@ func (cs *CombinationSolutions) arrangedValue(g *Governing, q Quantity, side Sid
 	return min(v[bottomFibre], v[topFibre])
 }
 
-// zeroRoundOff sets to zero the extremes of qs that are round-off against
-// their field's size (fieldScale, as the summary measures it, with the
-// loads of every load set of sets as the floor, a stress's of the
-// segments where it lies): a deflection of 3e-18 m beside one of 30 mm
-// is 0.
-func zeroRoundOff(qs []QuantityEnvelope, sets []*Solution) {
+// fixedFloors are forceFloor of each of cs.Fixed, with its exact solution
+// where there is one.
+func (cs *CombinationSolutions) fixedFloors() []floorSizes {
+	out := make([]floorSizes, len(cs.Fixed))
+	for c, s := range cs.Fixed {
+		var e *Exact
+		if c < len(cs.FixedExact) {
+			e = cs.FixedExact[c]
+		}
+		out[c] = forceFloor(s, e)
+	}
+	return out
+}
+
+// zeroRoundOff sets to zero the extremes of qs, of a member of model m,
+// that are round-off against their field's size (fieldScale, as the
+// summary measures it, with the largest of floors, forceFloor of every
+// load set, as the floor, a stress's of the segments where it lies): a
+// deflection of 3e-18 m beside one of 30 mm is 0.
+func zeroRoundOff(qs []QuantityEnvelope, m *Model, floors []floorSizes) {
 	var largest [quantityCount]float64
 	for _, q := range qs {
 		largest[q.Quantity] = max(math.Abs(q.Max.Value), math.Abs(q.Min.Value))
 	}
-	m := &sets[0].Model
 	floor := floorSizes{segments: make([][2]float64, len(m.Segments))}
-	for _, s := range sets {
-		f := forceFloor(s)
+	for _, f := range floors {
 		for k := range 3 {
 			floor.all[k], floor.axial[k] = max(floor.all[k], f.all[k]), max(floor.axial[k], f.axial[k])
 		}
@@ -979,18 +991,19 @@ func shareTolerance(f floorSizes, m *Model, i int, x float64) float64 {
 	return negligible * size
 }
 
-// shareFloors are forceFloor of every share.
+// shareFloors are forceFloor of every share, from its finite element
+// solution (the shares' exact ones are found later, if at all).
 func shareFloors(shares []*Solution) []floorSizes {
 	out := make([]floorSizes, len(shares))
 	for j, s := range shares {
-		out[j] = forceFloor(s)
+		out[j] = forceFloor(s, nil)
 	}
 	return out
 }
 
 // reactionEnvelope is the envelope of every support's reaction. A
 // reaction negligible against the size of the forces of every load set
-// (forceFloor: their loads, reactions and imposed deformations fully
+// (loadForces: their loads, reactions and imposed deformations fully
 // restrained) is round-off, such as the axial reaction of a member free to
 // expand, and reads as zero.
 func (cs *CombinationSolutions) reactionEnvelope() []ReactionEnvelope {
@@ -1013,12 +1026,13 @@ func (cs *CombinationSolutions) reactionEnvelope() []ReactionEnvelope {
 }
 
 // forceSize is the size of the forces of every load set of cs
-// (forceFloor: their loads, reactions and imposed deformations fully
+// (loadForces: their loads, reactions and imposed deformations fully
 // restrained), N: a resultant negligible against it is round-off.
 func (cs *CombinationSolutions) forceSize() float64 {
 	force := 0.0
 	for _, s := range slices.Concat(cs.Fixed, cs.Shares) {
-		force = max(force, forceFloor(s).all[0])
+		axial, across := loadForces(s)
+		force = max(force, axial, across)
 	}
 	return force
 }

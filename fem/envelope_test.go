@@ -568,3 +568,45 @@ func TestEnvelopeStressAgainstItsOwnSection(t *testing.T) {
 		t.Errorf("envelope at x = 2 m: largest combined stress %g Pa, want %g", at.Hi.CombinedStress, sigma)
 	}
 }
+
+// A displacement in the envelope is measured against the deformations of
+// the load sets, not against what their loads would do to the weakest
+// section: an unloaded overhang of I = 8e-20 m⁴ beside a span of
+// 8e-6 m⁴ made every displacement round-off, and the envelope's deflection
+// read 0 with no span loaded. A simply supported span L = 4 m under
+// q = 10 kN/m always on and the same placed by span (2q with the span
+// loaded) sags 5·2q·L⁴/(384EI) = 41.67 mm at midspan and turns
+// 2q·L³/(24EI) at its end (AISC Manual, Beam Diagrams and Formulas, simple
+// beam – uniformly distributed load), which lifts the unloaded overhang's
+// tip a = 1 m out by that slope times a, 33.33 mm (statics: the overhang
+// carries nothing).
+func TestEnvelopeDeflectionBesideAWeakOverhang(t *testing.T) {
+	const E, I, L, a, q = 200e9, 8e-6, 4.0, 1.0, 10e3
+	section := func(I float64) Section { return Section{Area: 4e-3, SecondMoment: I, FibreDistance: 0.1} }
+	steel := Material{Elastic: E}
+	uniform := []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -q}, {L, -q}}}}
+	m := &Model{
+		Segments: []Segment{{Start: 0, End: L, Section: section(I), Material: steel},
+			{Start: L, End: L + a, Section: section(8e-20), Material: steel}},
+		Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+		Cases: []LoadCase{{Name: "dead", DistributedLoad: uniform},
+			{Name: "imposed", DistributedLoad: slices.Clone(uniform), BySpan: true}},
+		Combinations: []Combination{{Name: "all", Factors: []CaseFactor{{0, 1}, {1, 1}}}},
+		Mesh:         MeshSettings{Elements: 8},
+	}
+	_, cs := solveCombinations(t, m)
+	sag, rise := 5*2*q*L*L*L*L/(384*E*I), 2*q*L*L*L/(24*E*I)*a
+	for _, qe := range cs.Envelope().Quantities {
+		if qe.Quantity != QDeflection {
+			continue
+		}
+		for _, g := range []struct {
+			got     Governing
+			want, x float64
+		}{{qe.Max, rise, L + a}, {qe.Min, -sag, L / 2}} {
+			if !relNear(g.got.Value, g.want, 1e-6) || math.Abs(g.got.X-g.x) > 1e-6 || !slices.Equal(g.got.Loaded, []Share{{Case: 1, Span: 0}}) {
+				t.Errorf("deflection %g m at x = %g with %+v loaded, want %g at x = %g with span 1", g.got.Value, g.got.X, g.got.Loaded, g.want, g.x)
+			}
+		}
+	}
+}

@@ -404,23 +404,60 @@ func (f floorSizes) stressNear(m *Model, xs ...float64) floorSizes {
 }
 
 // forceFloor is the size the internal forces of s's model are at least
-// measured against, N, its stresses, Pa, and its displacements, m: the
-// loads applied and the supports' actions (each, not their sum), and the
-// imposed deformations fully restrained (Model.ImposedScales), a moment
-// counted as a force by dividing by the length; the stress, per segment
-// the force on its area or the moment on its section modulus (and of the
-// whole model the largest of these); the
-// displacement, what that force stretches or bends the most flexible
-// segment over the member's length (F·L/EA, F·L³/EI), or over the shorter
-// length a stiff foundation spreads it over (groundLengths). The forces along the
-// member only stretch it and those across it and the moments only bend it
-// (linear theory), so each sets only its own share of the stress and the
-// displacement: a large axial force does not make a real deflection beside
-// it round-off. The axial sizes are those of the forces along the member
-// alone.
-func forceFloor(s *Solution) floorSizes {
+// measured against, N, its stresses, Pa, and its displacements, m. The
+// force is the loads applied and the supports' actions (each, not their
+// sum), and the imposed deformations fully restrained (Model.ImposedScales),
+// a moment counted as a force by dividing by the length (loadForces); the
+// stress, per segment the force on its area or the moment on its section
+// modulus (and of the whole model the largest of these). The displacement
+// is what the member's deformations make (Solution.deformations, from the
+// exact solution e where it is not nil, else from s): a segment that
+// carries nothing, however weak, makes no displacement, and does not make
+// the real deflections beside it round-off. Where the member deforms not
+// at all — the loads go straight into the supports — every displacement is
+// round-off, and the size is then what the force would stretch or bend the
+// most flexible segment over the member's length (F·L/EA, F·L³/EI), or over
+// the shorter length a stiff foundation spreads it over (groundLengths).
+// The forces along the member only stretch it and those across it and the
+// moments only bend it (linear theory), so each sets only its own share of
+// the stress and the displacement: a large axial force does not make a
+// real deflection beside it round-off. The axial sizes are those of the
+// forces along the member alone.
+func forceFloor(s *Solution, e *Exact) floorSizes {
 	m := &s.Model
 	L := m.Length()
+	axial, across := loadForces(s)
+	f := floorSizes{segments: make([][2]float64, len(m.Segments))}
+	f.all[0], f.axial[0] = max(axial, across), axial
+	var stretched, bent float64 // what the force would do to the most flexible segment, m
+	for i, sg := range m.Segments {
+		if sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
+			own := axial / sg.Section.Area
+			f.segments[i] = [2]float64{max(own, across*L*sg.Section.FibreDistance/sg.Section.SecondMoment), own}
+			f.axial[1] = max(f.axial[1], own)
+			f.all[1] = max(f.all[1], f.segments[i][0])
+		}
+		if el := sg.Material.Elastic; el > 0 && sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
+			ea, ei := el*sg.Section.Area, el*sg.Section.SecondMoment
+			la, lb := groundLengths(m, ea, ei)
+			stretched = max(stretched, axial*la/ea)
+			bent = max(bent, across*lb*lb*lb/ei)
+		}
+	}
+	along, aside := s.deformations(e, f.all[0])
+	if along == 0 && aside == 0 {
+		along, aside = stretched, bent
+	}
+	f.axial[2], f.all[2] = along, max(along, aside)
+	return f
+}
+
+// loadForces are the sizes of the forces on s's member along it and
+// across it, N: the loads applied, each support's action and the imposed
+// deformations fully restrained (Model.imposedScales), a moment counted as
+// a force across by dividing by the member's length.
+func loadForces(s *Solution) (axial, across float64) {
+	m := &s.Model
 	axial, across, moment := m.imposedScales()
 	a := s.Equilibrium.Applied
 	axial = max(axial, math.Abs(a[Axial]))
@@ -431,47 +468,146 @@ func forceFloor(s *Solution) floorSizes {
 		across = max(across, math.Abs(r.Force[Transverse]))
 		moment = max(moment, math.Abs(r.Force[Rotation]))
 	}
-	if L > 0 {
+	if L := m.Length(); L > 0 {
 		across = max(across, moment/L)
 	}
-	f := floorSizes{segments: make([][2]float64, len(m.Segments))}
-	f.all[0], f.axial[0] = max(axial, across), axial
-	for i, sg := range m.Segments {
-		if sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
-			own := axial / sg.Section.Area
-			f.segments[i] = [2]float64{max(own, across*L*sg.Section.FibreDistance/sg.Section.SecondMoment), own}
-			f.axial[1] = max(f.axial[1], own)
-			f.all[1] = max(f.all[1], f.segments[i][0])
+	return axial, across
+}
+
+// deformations are the sizes of the displacements along and across the
+// member that its deformations make, m: along, its strain integrated over
+// it, ∫|u′| dx; across, its curvature integrated and taken over the
+// member's length L, L·∫|θ′| dx (a curvature κ over a length dx turns the
+// member by κ·dx, which moves a point at most L away by L·κ·dx), with its
+// shear strain integrated, ∫|V|/(G·As) dx; to each the largest motion of
+// a support or a foundation: a settlement (a rotation's times L), a
+// spring's give |R|/k, and the motion a rigid member would need to press
+// a foundation's resultant and moment into it, |F|/(k·ℓ) + 6|M|/(k·ℓ²)
+// over the foundation's length ℓ. A hinge's kink adds nothing of its
+// own: a pure hinge turns as the curvatures and supports beside it make
+// it, a semi-rigid one under a moment that bends the member beside it too.
+// The strain and curvature are the
+// member's own, thermal ones included (u′ = N/EA + α·ΔT, θ′ = M/EI + κ_T),
+// so that a member that carries nothing, however weak, counts nothing,
+// and a heated bar free to expand counts its stretch. A strain, curvature,
+// shear force, reaction or resultant whose force is negligible against
+// force (N; a moment's against force·L) is round-off and counts nothing:
+// where the member does not deform — the loads go straight into the
+// supports, or a heated bar is held at both ends — both sizes are 0. The
+// fields are those of the exact solution e, stretch by stretch (its
+// ranges, Exact.stretchRanges), or without e those of s, element by
+// element. On a stretch held by a stiff foundation the fields die out
+// within a length of where they arise (decayLengths), and an exact
+// stretch's largest strain or curvature counts over twice that length at
+// most, not over the whole stretch.
+func (s *Solution) deformations(e *Exact, force float64) (along, across float64) {
+	m := &s.Model
+	L := m.Length()
+	tol := [3]float64{negligible * force, negligible * force, negligible * force * L} // by Dof
+	var stretch, turn, slide float64                                                  // ∫|u′| dx (m), ∫|θ′| dx (rad), ∫|γ| dx (m)
+	// add takes a stretch of section sec with its largest strain and
+	// curvature and shear force, the first over the length la and the
+	// others over lb.
+	add := func(sec *sectionData, la, lb, strain, curvature, shear float64) {
+		if sec.axialRigidity*strain > tol[Axial] {
+			stretch += strain * la
 		}
-		if e := sg.Material.Elastic; e > 0 && sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
-			ea, ei := e*sg.Section.Area, e*sg.Section.SecondMoment
-			la, lb := groundLengths(m, ea, ei)
-			f.axial[2] = max(f.axial[2], axial*la/ea)
-			f.all[2] = max(f.all[2], f.axial[2], across*lb*lb*lb/ei)
+		if sec.flexuralRigidity*curvature > tol[Rotation] {
+			turn += curvature * lb
+		}
+		if shear > tol[Transverse] && sec.shear > 0 {
+			slide += shear * sec.shear / sec.flexuralRigidity * lb
 		}
 	}
-	return f
+	if e != nil && len(e.stretches) > 0 {
+		// The largest |a·v + b| over the range r of v.
+		size := func(r [2]extremum, a, b float64) float64 {
+			return max(math.Abs(a*r[0].value+b), math.Abs(a*r[1].value+b))
+		}
+		for j, r := range e.stretchRanges() {
+			st := &e.stretches[j]
+			mid := st.start + 0.5*st.length
+			sec := &s.sections[m.SegmentAt(mid)]
+			ea, ei := sec.axialRigidity, sec.flexuralRigidity
+			k, ka := m.foundationAt(mid)
+			a, b := decayLengths(ea, ei, ka, k)
+			la, lb := min(st.length, 2*a), min(st.length, 2*b)
+			if ea > 0 && ei > 0 {
+				add(sec, la, lb, size(r[QAxialForce], 1/ea, sec.thermalStrain), size(r[QBendingMoment], 1/ei, sec.thermalCurvature), size(r[QShearForce], 1, 0))
+			}
+		}
+	} else {
+		// u′ and θ′ are linear on an element (the bubble's u′ and the
+		// curvature at its ends), V constant.
+		for i, el := range s.Mesh.Elements {
+			sec, g := &s.sections[el.Segment], &s.fields[i]
+			h := el.End - el.Start
+			add(sec, h, h, math.Abs(g.slope)+4*math.Abs(g.bubble)/h, max(math.Abs(g.curvature), math.Abs(g.curvature+g.third*h)), sec.flexuralRigidity*math.Abs(g.third))
+		}
+	}
+	var motion [3]float64 // the largest motion of a support or a foundation, by Dof
+	for _, r := range s.Reactions {
+		sp := m.Supports[r.Support]
+		for d := range Dof(3) {
+			switch {
+			case sp.Kind.Restrains(d) && r.Support < len(s.loads.Settlement):
+				motion[d] = max(motion[d], math.Abs(s.loads.Settlement[r.Support][d]))
+			case sp.Elastic(d) && math.Abs(r.Force[d]) > tol[d]:
+				motion[d] = max(motion[d], math.Abs(r.Force[d])/sp.Stiffness[d])
+			}
+		}
+	}
+	for _, r := range s.Foundations {
+		g, length := m.Foundations[r.Foundation], r.End-r.Start
+		if length <= 0 {
+			continue
+		}
+		if f := math.Abs(r.Force[0]); g.AxialModulus > 0 && f > tol[Axial] {
+			motion[Axial] = max(motion[Axial], f/(g.AxialModulus*length))
+		}
+		if g.Modulus > 0 {
+			var w float64
+			if f := math.Abs(r.Force[1]); f > tol[Transverse] {
+				w += f / (g.Modulus * length)
+			}
+			if c := math.Abs(r.Moment - r.Force[1]*0.5*(r.Start+r.End)); c > tol[Rotation] {
+				w += 6 * c / (g.Modulus * length * length)
+			}
+			motion[Transverse] = max(motion[Transverse], w)
+		}
+	}
+	return stretch + motion[Axial], L*turn + slide + max(motion[Transverse], motion[Rotation]*L)
 }
 
 // groundLengths are the lengths over which the forces along and across a
 // member of m stretch and bend a segment of rigidities ea and ei: the
 // member's length, or on an elastic foundation that holds the member the
-// length over which the stiffest foundation spreads a force, if shorter:
-// 1/α = √(EA/kₐ) along (the bar on an elastic bed, from memory) and
-// 1/β = (4EI/k)^¼ across (Hetényi, Beams on Elastic Foundation: a force P
-// deflects a long beam P·β/(2k) = P/(8EI·β³), from memory). A stiff bed
-// holds the deflection far under P·L³/EI, which would make a real
-// deflection and its error round-off.
+// length over which the stiffest foundation spreads a force, if shorter
+// (decayLengths). A stiff bed holds the deflection far under P·L³/EI,
+// which would make a real deflection and its error round-off.
 func groundLengths(m *Model, ea, ei float64) (along, across float64) {
 	L := m.Length()
 	along, across = L, L
 	for _, g := range m.Foundations {
-		if g.AxialModulus > 0 {
-			along = min(along, math.Sqrt(ea/g.AxialModulus))
-		}
-		if g.Modulus > 0 {
-			across = min(across, math.Sqrt(math.Sqrt(4*ei/g.Modulus)))
-		}
+		a, b := decayLengths(ea, ei, g.AxialModulus, g.Modulus)
+		along, across = min(along, a), min(across, b)
+	}
+	return along, across
+}
+
+// decayLengths are the lengths over which a bed of moduli ka along and k
+// across spreads a force on a member of rigidities ea and ei, m:
+// 1/α = √(EA/kₐ) along (the bar on an elastic bed, from memory) and
+// 1/β = (4EI/k)^¼ across (Hetényi, Beams on Elastic Foundation: a force P
+// deflects a long beam P·β/(2k) = P/(8EI·β³), from memory); infinite where
+// the modulus is 0.
+func decayLengths(ea, ei, ka, k float64) (along, across float64) {
+	along, across = math.Inf(1), math.Inf(1)
+	if ka > 0 {
+		along = math.Sqrt(ea / ka)
+	}
+	if k > 0 {
+		across = math.Sqrt(math.Sqrt(4 * ei / k))
 	}
 	return along, across
 }
@@ -480,11 +616,13 @@ func groundLengths(m *Model, ea, ei float64) (along, across float64) {
 // model's order) and the displacement (m) that the internal forces,
 // stresses and displacements of s are at least measured against
 // (forceFloor): what the loads, each support's action and the imposed
-// deformations fully restrained make. A value below a billionth of its
-// scale is round-off, as the summary's extremes read it: where the loads
-// go straight into the supports, the member carries nothing.
-func (s *Solution) LoadScales() (force float64, stress []float64, displacement float64) {
-	f := forceFloor(s)
+// deformations fully restrained make, and what the member's deformations
+// make, read from its exact solution e (nil: from s). A value below a
+// billionth of its scale is round-off, as the summary's extremes read it:
+// where the loads go straight into the supports, the member carries
+// nothing.
+func (s *Solution) LoadScales(e *Exact) (force float64, stress []float64, displacement float64) {
+	f := forceFloor(s, e)
 	stress = make([]float64, len(f.segments))
 	for i, sg := range f.segments {
 		stress[i] = sg[0]
@@ -673,7 +811,7 @@ func (z *Summarizer) Summary() Summary {
 	sum.Foundations = foundationSummaries(s, ex)
 	sum.Extremes = z.extremes.list()
 	if ex != nil {
-		withExact(sum.Extremes, ex.ownExtremes(), &s.Model, forceFloor(s))
+		withExact(sum.Extremes, ex.ownExtremes(), &s.Model, forceFloor(s, ex))
 	}
 	sum.Supports = supportActions(s, ex)
 	if s.AxialOnly {

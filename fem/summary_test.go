@@ -602,3 +602,201 @@ func TestSummaryStressAgainstItsOwnSection(t *testing.T) {
 
 // relNear says whether got is within a share tol of want.
 func relNear(got, want, tol float64) bool { return math.Abs(got-want) <= tol*math.Abs(want) }
+
+// A displacement is measured against the deformations the member really
+// has, not against what its loads would do to its weakest section: an
+// unloaded overhang of I = 8e-20 m⁴ beside a span of 8e-6 m⁴ made every
+// displacement round-off, and the span's deflection, the overhang's
+// rise and every rotation read 0, the displacement error 0 %. A simply
+// supported span L = 4 m under q = 10 kN/m (E = 200 GPa, I = 8e-6 m⁴)
+// sags 5qL⁴/(384EI) = 20.83 mm at midspan and turns qL³/(24EI) =
+// 0.01667 rad at its ends (AISC Manual, Beam Diagrams and Formulas,
+// simple beam – uniformly distributed load; Gere & Goodno, Mechanics of
+// Materials, Appendix D); the unloaded overhang carries no moment
+// (statics) and turns with the span's end, its tip a = 1 m beyond it
+// rising by the end slope times a. With a tip load P = 100 N on an
+// overhang of I = 8e-10 m⁴ that does bend, the tip drops
+// Pa²L/(3EI) + Pa³/(3EI₀) (the span's end turning under the moment Pa,
+// and the overhang as a cantilever; AISC, beam overhanging one support –
+// concentrated load at end of overhang, with the overhang's own bending
+// taken at its own I by superposition, from memory) and the span rises by
+// at most PaL²/(9√3·EI) at x = L/√3 (same AISC case). Beside the weak
+// unloaded overhang the other causes of displacement read too: the span
+// is statically determinate, so a settlement δ of its roller, or a
+// turn θ₀ of a fixed end, moves it and the overhang as a rigid body
+// (statics), and a spring of stiffness k under the roller gives by its
+// reaction qL/2 over k, the span turning by that over L on top of its own
+// bending; a temperature difference ΔT through the depth h bends the
+// heated span freely into κ = α·ΔT/h (docs/format.md; Timoshenko & Goodier,
+// Theory of Elasticity, thermal stress in beams, from memory), w = κ·x·(x −
+// L)/2: −κL²/8 at midspan, turning ∓κL/2 at its ends.
+func TestSummaryDisplacementsBesideAWeakOverhang(t *testing.T) {
+	const (
+		E, Is, L, a = 200e9, 8e-6, 4.0, 1.0
+		q           = 10e3
+		P, Io       = 100.0, 8e-10
+		delta, k    = 0.01, 75e3   // settlement (m), spring (N/m)
+		theta       = 0.001        // turn of a fixed end, rad
+		alpha, dT   = 1.2e-5, 20.0 // 1/K, K
+	)
+	section := func(I float64) Section { return Section{Area: 4e-3, SecondMoment: I, FibreDistance: 0.1} }
+	steel := Material{Elastic: E}
+	slope := q * L * L * L / (24 * E * Is)
+	uniform := func(m *Model) {
+		m.DistributedLoad = []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -q}, {L, -q}}}}
+	}
+	give := q * L / 2 / k
+	kappa := alpha * dT / 0.2 // h = 2c
+	for _, c := range []struct {
+		name     string
+		overhang float64 // I of the overhang, m⁴
+		model    func(m *Model)
+		// want are the exact extremes of deflection (m) and rotation (rad):
+		// largest, where, smallest, where.
+		deflection, rotation [4]float64
+		// cubic says w is cubic between the nodes, which Hermite elements
+		// reproduce exactly (from memory): the displacement error is then
+		// round-off.
+		cubic bool
+	}{
+		{"uniform load on the span, weak unloaded overhang", 8e-20, uniform,
+			[4]float64{slope * a, L + a, -5 * q * L * L * L * L / (384 * E * Is), L / 2},
+			[4]float64{slope, L, -slope, 0}, false},
+		{"tip load on a weak overhang", Io,
+			func(m *Model) { m.PointLoads = []PointLoad{{X: L + a, Transverse: -P}} },
+			[4]float64{P * a * L * L / (9 * math.Sqrt(3) * E * Is), L / math.Sqrt(3),
+				-(P*a*a*L/(3*E*Is) + P*a*a*a/(3*E*Io)), L + a},
+			// The rotation: P·a·L/(6EI) at x = 0 (end moment Pa, beam tables,
+			// from memory); at the tip −(P·a·L/(3EI) + P·a²/(2EI₀)).
+			[4]float64{P * a * L / (6 * E * Is), 0, -(P*a*L/(3*E*Is) + P*a*a/(2*E*Io)), L + a}, true},
+		// A rotation constant along the member is named at its start.
+		{"settlement of the roller", 8e-20,
+			func(m *Model) { m.Supports[1].Settlement = [3]float64{0, -delta, 0} },
+			[4]float64{0, 0, -delta * (L + a) / L, L + a}, [4]float64{-delta / L, 0, -delta / L, 0}, true},
+		{"turn of a fixed end", 8e-20,
+			func(m *Model) { m.Supports = []Support{{X: 0, Kind: Fixed, Settlement: [3]float64{0, 0, theta}}} },
+			[4]float64{theta * (L + a), L + a, 0, 0}, [4]float64{theta, 0, theta, 0}, true},
+		{"uniform load on the span over a spring", 8e-20,
+			func(m *Model) {
+				m.Supports[1] = Support{X: L, Kind: Spring, Stiffness: [3]float64{0, k, 0}}
+				uniform(m)
+			},
+			[4]float64{0, 0, -give*(L+a)/L + slope*a, L + a}, [4]float64{-give/L + slope, L, -give/L - slope, 0}, false},
+		{"temperature difference through the span", 8e-20,
+			func(m *Model) {
+				m.Segments[0].Material.ThermalExpansion, m.Segments[0].TemperatureDifference = alpha, dT
+			},
+			[4]float64{kappa * L / 2 * a, L + a, -kappa * L * L / 8, L / 2}, [4]float64{kappa * L / 2, L, -kappa * L / 2, 0}, true},
+	} {
+		m := &Model{
+			Segments: []Segment{{Start: 0, End: L, Section: section(Is), Material: steel},
+				{Start: L, End: L + a, Section: section(c.overhang), Material: steel}},
+			Supports: []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+			Mesh:     MeshSettings{Elements: 8},
+		}
+		c.model(m)
+		s, e := solveBoth(t, m)
+		sum := Summarize(s, e)
+		for k, want := range map[Quantity][4]float64{QDeflection: c.deflection, QRotation: c.rotation} {
+			x := sum.Extremes[k]
+			got := [4]float64{x.Max, x.XMax, x.Min, x.XMin}
+			for i := 0; i < 4; i += 2 {
+				if !relNear(got[i], want[i], 1e-6) || math.Abs(got[i+1]-want[i+1]) > 1e-6 {
+					t.Errorf("%s: %s extreme %g at x = %g, want %g at x = %g", c.name, k, got[i], got[i+1], want[i], want[i+1])
+				}
+			}
+		}
+		// The displacement error: the root mean square of w_h − w over that
+		// of w (its definition, ErrorNorms.RelativeL2), integrated here by
+		// Simpson's rule on a fine grid.
+		var errSq, wSq float64
+		const n = 4000
+		for i := 0; i <= n; i++ {
+			x := (L + a) * float64(i) / n
+			wt := 2.0 + 2*float64(i%2)
+			if i == 0 || i == n {
+				wt = 1
+			}
+			wh, w := s.At(x, Left).Deflection, e.At(x, Left).Deflection
+			errSq += wt * (wh - w) * (wh - w)
+			wSq += wt * w * w
+		}
+		want := math.Sqrt(errSq / wSq)
+		if got := sum.ExactError.RelativeL2; c.cubic && got > 1e-12 || !c.cubic && !relNear(got, want, 1e-3) {
+			t.Errorf("%s: displacement error %g, want %g (‖w_h − w‖/‖w‖; round-off where w is cubic)", c.name, got, want)
+		}
+	}
+}
+
+// Displacements that are zero in closed form still read zero beside a weak
+// unloaded overhang (I = 8e-20 m⁴), in the exact and the finite element
+// columns alike, now that round-off is judged against the deformations the
+// member has: the fixed end of a cantilever under q = 10 kN/m neither
+// moves nor turns, while its tip (L = 4 m) drops qL⁴/(8EI) and turns
+// qL³/(6EI) (Gere & Goodno, Mechanics of Materials, Appendix D,
+// cantilever under a uniform load, from memory), the unloaded extension
+// a = 1 m beyond it dropping a further qL³/(6EI)·a (statics: it carries
+// nothing); a pull P along the member bends nothing (linear theory) and
+// stretches it P·(L + a)/(EA) at its free end (Gere & Goodno, axially
+// loaded members), as far as a pull P at x = L stretches it, P·L/(EA),
+// however thin the unloaded overhang beyond (A = 4e-20 m²); a force on a
+// pinned support goes straight into it (statics), and the member does not
+// move at all.
+func TestSummaryDisplacementRoundOffBesideAWeakOverhang(t *testing.T) {
+	const E, I, A, L, a, q, P = 200e9, 8e-6, 4e-3, 4.0, 1.0, 10e3, 50e3
+	section := func(I float64) Section { return Section{Area: A, SecondMoment: I, FibreDistance: 0.1} }
+	tip := q * L * L * L / (6 * E * I)
+	for _, c := range []struct {
+		name     string
+		area     float64 // the overhang's, m²
+		supports []Support
+		loads    func(m *Model)
+		// want are the exact extremes, largest and smallest, with where
+		// they are, of the quantities listed; every other displacement
+		// extreme is 0 in both columns.
+		want map[Quantity][4]float64
+	}{
+		{"cantilever under a uniform load", A, []Support{{X: 0, Kind: Fixed}},
+			func(m *Model) {
+				m.DistributedLoad = []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, -q}, {L, -q}}}}
+			},
+			map[Quantity][4]float64{QDeflection: {0, 0, -(q*L*L*L*L/(8*E*I) + tip*a), L + a}, QRotation: {0, 0, -tip, L}}},
+		{"pull along the member", A, []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+			func(m *Model) { m.PointLoads = []PointLoad{{X: L + a, Axial: P}} },
+			map[Quantity][4]float64{QAxialDisplacement: {P * (L + a) / (E * A), L + a, 0, 0}}},
+		{"pull beside a thin unloaded overhang", 4e-20, []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+			func(m *Model) { m.PointLoads = []PointLoad{{X: L, Axial: P}} },
+			map[Quantity][4]float64{QAxialDisplacement: {P * L / (E * A), L, 0, 0}}},
+		{"force on a support", A, []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}},
+			func(m *Model) { m.PointLoads = []PointLoad{{X: 0, Transverse: -P}} },
+			nil},
+	} {
+		m := &Model{
+			Segments: []Segment{{Start: 0, End: L, Section: section(I), Material: Material{Elastic: E}},
+				{Start: L, End: L + a, Section: Section{Area: c.area, SecondMoment: 8e-20, FibreDistance: 0.1}, Material: Material{Elastic: E}}},
+			Supports: c.supports,
+			Mesh:     MeshSettings{Elements: 8},
+		}
+		c.loads(m)
+		sum := Summarize(solveBoth(t, m))
+		for _, k := range []Quantity{QAxialDisplacement, QDeflection, QRotation} {
+			x := sum.Extremes[k]
+			want, ok := c.want[k]
+			switch {
+			case !ok && (x.Max != 0 || x.Min != 0 || x.FEMax != 0 || x.FEMin != 0):
+				t.Errorf("%s: %s extremes %g, %g (exact) and %g, %g (FE), want all 0", c.name, k, x.Max, x.Min, x.FEMax, x.FEMin)
+			case ok:
+				got := [4]float64{x.Max, x.XMax, x.Min, x.XMin}
+				fe := [2]float64{x.FEMax, x.FEMin}
+				for i := 0; i < 4; i += 2 {
+					if want[i] == 0 && (got[i] != 0 || fe[i/2] != 0) {
+						t.Errorf("%s: %s extreme %g (exact), %g (FE), want 0 and 0", c.name, k, got[i], fe[i/2])
+					}
+					if !relNear(got[i], want[i], 1e-6) || math.Abs(got[i+1]-want[i+1]) > 1e-6 {
+						t.Errorf("%s: %s extreme %g at x = %g, want %g at x = %g", c.name, k, got[i], got[i+1], want[i], want[i+1])
+					}
+				}
+			}
+		}
+	}
+}

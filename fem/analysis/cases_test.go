@@ -817,3 +817,42 @@ func TestCombinationThatCancelsWithEverySpanLoadedIsZero(t *testing.T) {
 		}
 	}
 }
+
+// The envelope's deflection checks judge a deflection against the
+// deformations of the load sets, not against what their loads would do to
+// the weakest section: beside an unloaded overhang of I = 8e-20 m⁴, a 4 m
+// span (I = 8e-6 m⁴, E = 200 GPa) under q = 10 kN/m always on and the
+// same placed by span (serviceability, factors 1) read "0 mm, within
+// limit" in both checks. With the span loaded it carries 2q and sags
+// 5·2q·L⁴/(384EI) = 41.67 mm, turning 2q·L³/(24EI) at its end (AISC
+// Manual, Beam Diagrams and Formulas, simple beam – uniformly distributed
+// load), which lifts the overhang's tip a = 1 m out by that slope times a,
+// 33.33 mm (statics: the overhang carries nothing), the span being the
+// only one the imposed load can stand on; both fail their limits,
+// span/360 = 11.1 mm and 2a/360 = 5.6 mm (common practice).
+func TestEnvelopeDeflectionChecksBesideAWeakOverhang(t *testing.T) {
+	const E, I, L, a, q = 200e9, 8e-6, 4.0, 1.0, 10e3
+	segment := func(x0, x1, I float64) fem.Segment {
+		return fem.Segment{Start: x0, End: x1, Section: fem.Section{Area: 0.004, SecondMoment: I, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: E}}
+	}
+	uniform := func() []fem.DistributedLoad {
+		return []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -q}, {X: L, Intensity: -q}}}}
+	}
+	m := fem.Model{
+		Segments:     []fem.Segment{segment(0, L, I), segment(L, L+a, 8e-20)},
+		Supports:     []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L, Kind: fem.Roller}},
+		Cases:        []fem.LoadCase{{Name: "dead", DistributedLoad: uniform()}, {Name: "imposed", DistributedLoad: uniform(), BySpan: true}},
+		Combinations: []fem.Combination{{Name: "S", Kind: fem.Serviceability, Factors: []fem.CaseFactor{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}}},
+		Mesh:         fem.MeshSettings{Elements: 8},
+	}
+	for _, c := range []struct {
+		span [2]float64
+		want float64
+	}{{[2]float64{0, L}, 5 * 2 * q * L * L * L * L / (384 * E * I)}, {[2]float64{L, L + a}, 2 * q * L * L * L / (24 * E * I) * a}} {
+		r := envelopeCheck(t, m, func(r check.Result) bool { return r.Code == check.CodeDeflection && r.Span == c.span }, "no deflection check of the span or the overhang")
+		if math.Abs(r.Value-c.want) > 1e-6*c.want || r.Status != check.Fail {
+			t.Errorf("%s: %s, %.9g m; want a failure at %.9g m", r.Name, r.Status, r.Value, c.want)
+		}
+	}
+}

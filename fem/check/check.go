@@ -361,12 +361,14 @@ func (p *Probe) Join(later fem.Visitor) {
 
 // dropRoundOff zeroes the stresses and deflections of both solutions'
 // peaks that are round-off against the loads' scale
-// (fem.Solution.LoadScales), a stress against its own segment's: where the
-// loads go straight into the supports the member carries nothing, and
+// (fem.Solution.LoadScales), a stress against its own segment's, a
+// deflection against what the member's deformations make (read from the
+// exact solution where there is one): where the loads go straight into the
+// supports the member carries nothing, and
 // 1e-13 Pa is no stress (nor a difference of 100 % between two such
 // values).
 func (p *Probe) dropRoundOff() {
-	_, stress, displacement := p.solution.LoadScales()
+	_, stress, displacement := p.solution.LoadScales(p.exact)
 	for _, k := range []*peaks{&p.fe, &p.ex} {
 		for i := range k.stress {
 			if math.Abs(k.stress[i].value) <= negligible*stress[i] {

@@ -922,3 +922,42 @@ func TestCheckMessagesSayOverflowInWords(t *testing.T) {
 		}
 	}
 }
+
+// A deflection is judged against the deformations the member has, not
+// against what its loads would do to its weakest section: beside an
+// unloaded overhang of I = 8e-20 m⁴ the span's 20.83 mm and the
+// overhang's 16.67 mm read "0 mm, within limit". A simply supported
+// span L = 4 m under q = 10 kN/m (E = 200 GPa, I = 8e-6 m⁴) sags
+// 5qL⁴/(384EI) = 20.83 mm at midspan and turns qL³/(24EI) at its end (AISC
+// Manual, Beam Diagrams and Formulas, simple beam – uniformly distributed
+// load); the overhang carries no moment (statics), so its tip a = 1 m out
+// moves by that slope times a, 16.67 mm. Both are beyond their limits,
+// L/360 = 11.1 mm and 2a/360 = 5.6 mm (common practice). Without an exact
+// solution the finite element one is judged: its Hermite nodal values are
+// exact here (from memory) and the mesh has nodes at 2 m and 5 m.
+func TestDeflectionBesideAWeakOverhang(t *testing.T) {
+	const E, I, L, a, q = 200e9, 8e-6, 4.0, 1.0, 10e3
+	segment := func(x0, x1, I float64) fem.Segment {
+		return fem.Segment{Start: x0, End: x1, Section: fem.Section{Area: 0.004, SecondMoment: I, FibreDistance: 0.1},
+			Material: fem.Material{Name: "steel", Elastic: E}}
+	}
+	m := fem.Model{Segments: []fem.Segment{segment(0, L, I), segment(L, L+a, 8e-20)},
+		Supports:        []fem.Support{{X: 0, Kind: fem.Pinned}, {X: L, Kind: fem.Roller}},
+		DistributedLoad: []fem.DistributedLoad{uniform(-q, 0, L)},
+		Mesh:            fem.MeshSettings{Elements: 8}}
+	s, e := solveBoth(t, &m)
+	span := 5 * q * L * L * L * L / (384 * E * I)
+	tip := q * L * L * L / (24 * E * I) * a
+	for _, exact := range []*fem.Exact{e, nil} {
+		results := Run(&m, s, exact, DefaultOptions())
+		for _, c := range []struct {
+			name string
+			want float64
+		}{{"Deflection, span", span}, {"Deflection, cantilever", tip}} {
+			r := find(t, results, c.name)
+			if !near(r.Value, c.want, 1e-6) || r.Status != Fail {
+				t.Errorf("exact solution %t: %s: %g m, %s, want %g m, %s", exact != nil, r.Name, r.Value, r.Status, c.want, Fail)
+			}
+		}
+	}
+}
