@@ -90,7 +90,11 @@ func (q sym2) reach(y [2]float64) float64 {
 	}
 	v := y[0]*y[0]*q.a + 2*y[0]*y[1]*q.b + y[1]*y[1]*q.c
 	size := y[0]*y[0]*math.Abs(q.a) + 2*math.Abs(y[0]*y[1]*q.b) + y[1]*y[1]*math.Abs(q.c)
-	return math.Sqrt(max(v, 0)+boundRoundOff*size) + 0x1p-1066*math.Sqrt(math.Abs(q.a)+math.Abs(q.c))
+	r := math.Sqrt(max(v, 0) + boundRoundOff*size)
+	if max(math.Abs(y[0]), math.Abs(y[1])) < 0x1p-1000 {
+		r += 0x1p-1066 * math.Sqrt(math.Abs(q.a)+math.Abs(q.c))
+	}
+	return r
 }
 
 // pieceBound is the ellipse holding Σ_p c_p·t_p for every |t_p| ≤ hᵖ, c_p the
@@ -158,12 +162,23 @@ type window struct {
 	reach               []float64
 }
 
+// fewStretches is the number of stretches below which a window is the
+// whole member: its lines die away over a few tens of them (farLine), and
+// on fewer the window would save too little to pay for finding it (the
+// two spans of BenchmarkEnvelopeFourAxles2000Positions10000Elements lost
+// a third of their time to it).
+const fewStretches = 24
+
 // set finds the window of the lines the readers rs read (at one point)
 // for a train whose loads stand within extent of each other (m).
 func (w *window) set(s *sweeps, rs []reader, extent float64) {
 	K := len(s.keys) - 1
 	n := len(rs)
 	r0 := &rs[0]
+	if K < fewStretches {
+		w.lo, w.hi, w.whole = 0, K-1, true
+		return
+	}
 	w.beyond = slices.Grow(w.beyond[:0], n)[:n]
 	w.size = slices.Grow(w.size[:0], n)[:n]
 	w.rowAfter = slices.Grow(w.rowAfter[:0], n)[:n]
