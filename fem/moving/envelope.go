@@ -20,7 +20,7 @@ const maxReaders = len(envelopeRows)
 // the largest of −v for least; lo −∞ while it may be unset), until an
 // effect beyond hi comes, which it would take whatever it held, and it is
 // sure again. Meanwhile value and at follow the positions taken alone.
-// One that ends unsure is found again over the whole member (scanRuns).
+// One that ends unsure is found again over every position (scanRuns).
 type extreme struct {
 	value  float64
 	at     Placement
@@ -119,10 +119,10 @@ func signed(v float64, upper bool) float64 {
 // from the member's origin, or for an axle kilometres behind the front
 // (written about the origin, such a cubic cancelled all but a few).
 //
-// With a window w (nil for none: ls holds the whole member), ls holds the
-// window's pieces alone and scan leaves out the positions whose loads all
-// stand off the stretch where the lines matter (see window.go), taking
-// instead their bound into hi and lo (extreme.skip).
+// With a window w, ls holds the window's pieces alone and scan leaves out
+// the positions whose loads all stand off the stretch where the lines
+// matter (see window.go), taking instead their bound into hi and lo
+// (extreme.skip); w is nil where ls holds every load of every position.
 func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side, w *window) {
 	n, ell := ls.n, ls.length
 	r.setCut(ls, w)
