@@ -1080,3 +1080,142 @@ func TestEachIntervalFromTwoGoroutines(t *testing.T) {
 		}
 	}
 }
+
+// A bed far stiffer than any ground (1e149 N/m² under a 1,000 m member:
+// β = 2e35 /m, so 1/β is 5e-36 m) changes its fields within a sliver no
+// mesh can follow: 200,000 elements on it missed the shear force by 100 %
+// as one element does, and `stave solve` took 20 s. The default mesh
+// gives such a bed's pieces one element each, and says so; the exact
+// solution is Hetényi's infinite beam under a central load P to round-off
+// (w = −Pβ/(2k), M = P/(4β), V = ±P/2 beside the load; Hetényi, Beams on
+// Elastic Foundation, 1946, from memory; the ends change it by e^(−βL/2),
+// nothing), and the FE reactions still balance the load.
+func TestDefaultMeshOnABedNoMeshFollows(t *testing.T) {
+	const L, k, P = 1000.0, 1e149, -1e4
+	m := groundModel(L, k)
+	m.PointLoads = []PointLoad{{X: L / 2, Transverse: P}}
+	s := mustSolve(t, m)
+	// Two stretches (either side of the load) of maxGroundPieces pieces.
+	if n := len(s.Mesh.Elements); n > 2*maxGroundPieces {
+		t.Errorf("%d elements, want one a piece, %d at most", n, 2*maxGroundPieces)
+	}
+	if !strings.Contains(s.Mesh.Note, "too stiff for any mesh to follow") {
+		t.Errorf("mesh note %q does not say why its elements are few", s.Mesh.Note)
+	}
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	beta := math.Sqrt(math.Sqrt(k / (4 * testE * testI)))
+	left, right := e.At(L/2, Left), e.At(L/2, Right)
+	for _, c := range []struct {
+		what      string
+		got, want float64
+	}{
+		{"w under the load", right.Deflection, P * beta / (2 * k)},
+		{"M under the load", right.BendingMoment, -P / (4 * beta)},
+		{"V left of the load", left.ShearForce, -P / 2},
+		{"V right of the load", right.ShearForce, P / 2},
+	} {
+		if relErr(c.got, c.want) > 1e-9 {
+			t.Errorf("exact %s = %.12g, want %.12g (Hetényi)", c.what, c.got, c.want)
+		}
+	}
+	if r := s.Equilibrium.Residual; math.Abs(r[1]) > 1e-9*math.Abs(P) || math.Abs(r[2]) > 1e-9*math.Abs(P)*L {
+		t.Errorf("FE equilibrium residual %v, want round-off", r)
+	}
+}
+
+// followable: elements are worth making on a piece of a bed unless the
+// rule asks for more than maxAutomaticElements there and even that many
+// would be longer than 1/rate each.
+func TestFollowable(t *testing.T) {
+	const piece = 1.0 // m; maxAutomaticElements elements 5 µm long
+	for _, c := range []struct {
+		name    string
+		h, rate float64
+		want    bool
+	}{
+		{"a few elements", 0.1, 1e3, true},
+		{"many, within the cap", piece / 1e5, 1e6, true},
+		{"beyond the cap, the cap follows (β·h = 0.5)", piece / 1e6, 1e5, true},
+		{"beyond the cap, the cap follows not (β·h = 2)", piece / 1e6, 4e5, false},
+		{"off a bed", piece / 1e6, 0, true},
+	} {
+		if got := followable(c.h, c.rate, piece); got != c.want {
+			t.Errorf("%s: followable %v, want %v", c.name, got, c.want)
+		}
+	}
+}
+
+// On a stretch whose fields decay from its ends within a sliver of it,
+// an interval whose every sample and Gauss node lies deadUnits of decay or
+// more from those ends reads the particular solution alone: eight samples
+// and one panel, where it took sixteen a unit up to the cap (1.6 million
+// on a stretch of a bed of 1e149 N/m²); its range is then that of the
+// samples at its ends (the load's jump in the shear force, ±P/2, here).
+// A stretch of moderate λ keeps sixteen samples a unit.
+func TestClosedSamplesOfADeadStretch(t *testing.T) {
+	for _, c := range []struct {
+		name         string
+		k            float64
+		dead         bool
+		pieces, legs int
+	}{
+		{"a bed no mesh follows", 1e149, true, 8, 1},
+		{"a moderate bed", 6.4e6, false, 0, 0},
+	} {
+		const L, P = 20.0, -1e4
+		m := groundModel(L, c.k)
+		m.PointLoads = []PointLoad{{X: L / 2, Transverse: P}}
+		m.Mesh = MeshSettings{Elements: 2}
+		e, err := SolveExact(m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		intervals := 0
+		for _, v := range e.EachInterval() {
+			if v.closed.stretch == nil {
+				continue
+			}
+			intervals++
+			units := v.closed.span * v.closed.stretch.waves()
+			if !c.dead {
+				if want := 8 + int(math.Ceil(16*units)); v.closedPieces() != want {
+					t.Errorf("%s: %d samples, want %d, sixteen a unit of %g", c.name, v.closedPieces(), want, units)
+				}
+				continue
+			}
+			if v.closedPieces() != c.pieces || v.closedPanels() != c.legs {
+				t.Errorf("%s: %d pieces and %d panels, want %d and %d", c.name, v.closedPieces(), v.closedPanels(), c.pieces, c.legs)
+			}
+			lo, hi := v.Range(QShearForce)
+			if want := math.Abs(P / 2); relErr(max(-lo.Value, hi.Value), want) > 1e-9 {
+				t.Errorf("%s: shear force from %g to %g on [%g, %g], want %g beside the load", c.name, lo.Value, hi.Value, v.Start, v.end, want)
+			}
+		}
+		if intervals == 0 {
+			t.Fatalf("%s: no interval in closed form", c.name)
+		}
+	}
+}
+
+// The 1,000 m member on a bed of 1e149 N/m² of TestDefaultMeshOnABedNoMeshFollows,
+// as `stave solve` takes it: meshing from the exact solution, solving and
+// comparing FE with exact (20 s before the mesh gave up following such a
+// bed and the comparison its dead samples).
+func BenchmarkBedNoMeshFollows(b *testing.B) {
+	m := groundModel(1000, 1e149)
+	m.PointLoads = []PointLoad{{X: 500, Transverse: -1e4}}
+	for b.Loop() {
+		s, err := Solve(m)
+		if err != nil {
+			b.Fatal(err)
+		}
+		e, err := SolveExact(m)
+		if err != nil {
+			b.Fatal(err)
+		}
+		Summarize(s, e)
+	}
+}

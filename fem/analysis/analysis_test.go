@@ -435,6 +435,51 @@ func TestDepthAgainstTheFibreDistance(t *testing.T) {
 	}
 }
 
+// A foundation so stiff that the member on it would bend over a sliver of
+// its depth is a caution (the model is solved as entered): β = (k/4EI)^¼
+// (Hetényi, Beams on Elastic Foundation, 1946, from memory), and the
+// caution comes once 1/β is below a tenth of the depth (stiffBed, common
+// practice). The section: E·I = 200e9 · 8e-5 = 1.6e7 N·m², depth 0.3 m
+// (twice c = 0.15 m, or given), or √(12·I/A) = 0.3098 m for A = 0.01 m²
+// when neither is given; the modulus for β·d = r is k = 4EI·(r/d)⁴.
+func TestFoundationFarTooStiff(t *testing.T) {
+	const ei, d = 200e9 * 8e-5, 0.3
+	at := func(r, depth float64) float64 { return 4 * ei * math.Pow(r/depth, 4) }
+	for _, c := range []struct {
+		name          string
+		k, c, depth   float64 // N/m², m, m
+		want          bool
+		wantInMessage string
+	}{
+		{"a stiff soil", 1e8, 0.15, 0, false, ""},
+		{"rock, far below the threshold", 1e10, 0.15, 0, false, ""},
+		{"just within (β·d = 9.9)", at(9.9, d), 0.15, 0, false, ""},
+		{"just beyond (β·d = 10.1)", at(10.1, d), 0.15, 0, true, "a small part of its depth of 300.0 mm"},
+		{"depth given", at(10.1, 0.25), 0.15, 0.25, true, "depth of 250.0 mm"},
+		{"no depth, rectangle of A and I", at(10.1, math.Sqrt(12*8e-5/0.01)), 0, 0, true, "depth of 309.8 mm"},
+		// β = (1e149/6.4e7)^¼ = 1.988e35 /m: 1/β = 5.030e-33 mm.
+		{"1e149 N/m²", 1e149, 0.15, 0, true, "1/β = (4·E·I/k)^¼ of 5.030e-33 mm"},
+	} {
+		seg := fem.Segment{Start: 0, End: 10,
+			Section:  fem.Section{Area: 0.01, SecondMoment: 8e-5, FibreDistance: c.c, Depth: c.depth},
+			Material: fem.Material{Elastic: 200e9}}
+		m := fem.Model{Segments: []fem.Segment{seg}, Supports: []fem.Support{{X: 5, Kind: fem.AxialOnly}},
+			Foundations: []fem.Foundation{{Start: 0, End: 10, Modulus: c.k}},
+			PointLoads:  []fem.PointLoad{{X: 5, Transverse: -1e4}}}
+		fs := materialFindings(t, m)
+		said := messagesOf(fs, "modulus of foundation 1")
+		switch {
+		case c.want && !strings.Contains(said, c.wantInMessage):
+			t.Errorf("%s: caution %q, want one saying %q (findings %+v)", c.name, said, c.wantInMessage, fs)
+		case !c.want && said != "":
+			t.Errorf("%s: caution %q, want none", c.name, said)
+		}
+		if c.want && len(fs) > 0 && fs[0].Span != [2]float64{0, 10} {
+			t.Errorf("%s: the caution spans %v, want the foundation's 0 to 10 m", c.name, fs[0].Span)
+		}
+	}
+}
+
 // materialFindings are the findings of code material of m, analysed in full.
 func materialFindings(t *testing.T, m fem.Model) []Finding {
 	t.Helper()

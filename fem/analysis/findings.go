@@ -114,6 +114,7 @@ func (a *Analysis) Findings() []Finding {
 	out = append(out, selfWeightFindings(&a.Model)...)
 	out = append(out, shearAreaFindings(&a.Model, a.Units)...)
 	out = append(out, depthFindings(&a.Model, a.Units)...)
+	out = append(out, foundationFindings(&a.Model, a.Units)...)
 	if a.Solution == nil {
 		return out
 	}
@@ -274,6 +275,67 @@ func depthFindings(m *fem.Model, u units.System) []Finding {
 			continue
 		}
 		out = append(out, segmentFinding(s, fmt.Sprintf("depth of segment %d", i+1), msg))
+	}
+	return out
+}
+
+// stiffBed is how many times the characteristic length 1/β of the member
+// on a foundation may go into the depth of its section before the
+// foundation is taken as far too stiff (foundationFindings): a margin of
+// ten on beam theory's need for lengths long against the depth (common
+// practice, not a code's value).
+const stiffBed = 10
+
+// foundationFindings are the cautions that a foundation is so stiff that
+// the member on it would bend over lengths far below the depth of its
+// section: the characteristic length 1/β, β = (k/4EI)^¼ (Hetényi, Beams on
+// Elastic Foundation, 1946, from memory), over which the fields under a
+// load wave and decay, is less than a stiffBed-th of the depth. Beam
+// theory, and Winkler's bed under it, take a member that bends over
+// lengths long against its depth, so the model means nothing there, and
+// no mesh can follow it; such a modulus most often comes of wrong units
+// (N/m³ of a subgrade entered as N/m² per metre of member, say), so the
+// model is solved as entered and the caution says what to check. The
+// depth is the section's (twice its fibre distance when no depth is
+// given), or that of the rectangle of the same A and I, √(12·I/A), when
+// neither is; one caution per foundation, for the segment under it that
+// it bends shortest. Lengths and the modulus are quoted in u.
+func foundationFindings(m *fem.Model, u units.System) []Finding {
+	var out []Finding
+	for i, f := range m.Foundations {
+		if !(f.Modulus > 0) {
+			continue
+		}
+		worst, seg, beta, depth := 0.0, -1, 0.0, 0.0
+		for j, s := range m.Segments {
+			ei := s.Material.Elastic * s.Section.SecondMoment
+			if s.End <= f.Start || s.Start >= f.End || !(ei > 0) {
+				continue
+			}
+			b := math.Sqrt(math.Sqrt(f.Modulus / (4 * ei)))
+			d := s.Section.Depth
+			if !(d > 0) {
+				d = 2 * s.Section.FibreDistance
+			}
+			if !(d > 0) {
+				d = math.Sqrt(12 * s.Section.SecondMoment / s.Section.Area)
+			}
+			if r := b * d; r > worst {
+				worst, seg, beta, depth = r, j, b, d
+			}
+		}
+		if !(worst > stiffBed) {
+			continue
+		}
+		dim := func(v float64) string { return u.Format(units.Dimension, v) }
+		c := finding(CodeMaterial, fmt.Sprintf("modulus of foundation %d", i+1), fmt.Sprintf(
+			"Foundation %d's modulus of %s makes segment %d on it bend over a characteristic length 1/β = (4·E·I/k)^¼ of %s, a small part of its depth of %s: "+
+				"beam theory, and the elastic foundation under it, take a member that bends over lengths long against its depth, and mean nothing here. "+
+				"At this stiffness the bed holds the member as if it were rigid: its deflection, rotation and moment come out next to nothing, and its shear force jumps within 1/β of each load, which no mesh can follow. "+
+				"Check the modulus and its units: it is the force per length of member per length of deflection, a modulus of subgrade reaction times the width in contact. A bed that is to hold the member rigidly is better given as supports.",
+			i+1, u.Format(units.FoundationModulus, f.Modulus), seg+1, dim(1/beta), dim(depth)))
+		c.Span = [2]float64{f.Start, f.End}
+		out = append(out, c)
 	}
 	return out
 }

@@ -60,7 +60,12 @@
 // point or x itself. Envelope takes the largest and smallest of F on each
 // such piece at its ends and at the roots of F′, evaluated exactly, a
 // handful of evaluations per piece, so its cost grows with the stations,
-// the axles and the key points but not with the step.
+// the axles and the key points but not with the step. Over many supports
+// a station's lines die away within some tens of spans, so each station
+// is filled and scanned only over the stretch where its lines matter
+// (a window), the positions left out bounded: the cost then grows with
+// the stations, not with the stations times the supports, and the
+// extremes are those of every position (window.go).
 //
 // The worst value along the member lies between stations. For the moment
 // (and the bending stress and the shear force beside an axle) it stands

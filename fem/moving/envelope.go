@@ -13,29 +13,48 @@ const maxReaders = len(envelopeRows)
 
 // extreme is the largest (or smallest) effect found so far and the
 // position of the train that gives it; set is false before any.
+//
+// A windowed scan leaves out positions whose effects it bounds (skip):
+// had they been taken in turn, the extreme might stand elsewhere. It is
+// then unsure: the value it would hold lies between lo and hi (signed:
+// the largest of −v for least; lo −∞ while it may be unset), until an
+// effect beyond hi comes, which it would take whatever it held, and it is
+// sure again. Meanwhile value and at follow the positions taken alone.
+// One that ends unsure is found again over every position (scanRuns).
 type extreme struct {
-	value float64
-	at    Placement
-	set   bool
+	value  float64
+	at     Placement
+	set    bool
+	unsure bool
+	lo, hi float64
 }
 
 // most takes v at position at where it is the first or beyond the largest
 // so far by more than a tie (fem.Beyond): of equal effects, round-off
 // apart, the first found (forward before backward, then along the run).
-func (e *extreme) most(v float64, at Placement) {
-	if e.takes(v, true) {
-		e.value, e.at, e.set = v, at, true
-	}
-}
+func (e *extreme) most(v float64, at Placement) { e.take(v, at, true) }
 
 // least is most for the smallest.
-func (e *extreme) least(v float64, at Placement) {
-	if e.takes(v, false) {
+func (e *extreme) least(v float64, at Placement) { e.take(v, at, false) }
+
+// take is most (upper) or least.
+func (e *extreme) take(v float64, at Placement, upper bool) {
+	if e.unsure {
+		switch sv := signed(v, upper); {
+		case fem.Beyond(sv, e.hi):
+			e.value, e.at, e.set, e.unsure = v, at, true, false
+			return
+		case fem.Beyond(sv, e.lo):
+			e.hi = max(e.hi, sv)
+		}
+	}
+	if e.takes(v, upper) {
 		e.value, e.at, e.set = v, at, true
 	}
 }
 
-// takes reports whether most (upper) or least would take v.
+// takes reports whether most (upper) or least would take v, of the
+// positions taken (see extreme).
 func (e *extreme) takes(v float64, upper bool) bool {
 	switch {
 	case !e.set:
@@ -44,6 +63,41 @@ func (e *extreme) takes(v float64, upper bool) bool {
 		return fem.Beyond(v, e.value)
 	}
 	return fem.Beyond(e.value, v)
+}
+
+// skip stands for positions left out whose effects lie within ±bound:
+// most (upper) or least might have taken any of them. Where the line is
+// exactly zero off the window (zero: its every piece there is ±0),
+// positions from the first of a run (first, fromStart) give exactly +0,
+// as sums of ±0 and a uniform load's integrals over them do, so they are
+// taken as the first of them, the rest changing nothing.
+func (e *extreme) skip(bound float64, zero bool, upper bool, first Placement, fromStart bool) {
+	if !(bound >= 0) {
+		bound = math.Inf(1) // no bound: unsure for good
+	}
+	switch {
+	case zero && fromStart:
+		e.take(0, first, upper)
+	case e.unsure:
+		if fem.Beyond(bound, e.lo) {
+			e.hi = max(e.hi, bound)
+		}
+	case !e.set:
+		e.unsure, e.lo, e.hi = true, math.Inf(-1), bound
+	default:
+		if sv := signed(e.value, upper); fem.Beyond(bound, sv) {
+			e.unsure, e.lo, e.hi = true, sv, max(sv, bound)
+		}
+	}
+}
+
+// signed is v for the largest, −v for the smallest: Beyond is symmetric
+// under the change of sign.
+func signed(v float64, upper bool) float64 {
+	if upper {
+		return v
+	}
+	return -v
 }
 
 // scan folds into hi and lo (one per line of ls) the largest and smallest
@@ -64,10 +118,19 @@ func (e *extreme) takes(v float64, upper bool) bool {
 // piece's length, so that F keeps its digits on a piece 0.1 mm long 5 m
 // from the member's origin, or for an axle kilometres behind the front
 // (written about the origin, such a cubic cancelled all but a few).
-func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
+//
+// With a window w, ls holds the window's pieces alone and scan leaves out
+// the positions whose loads all stand off the stretch where the lines
+// matter (see window.go), taking instead their bound into hi and lo
+// (extreme.skip); w is nil where ls holds every load of every position.
+func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side, w *window) {
 	n, ell := ls.n, ls.length
+	r.setCut(ls, w)
 	r.terms(ls)
-	br := r.mergeBreaks(ls)
+	br, before, after, total := r.mergeBreaks(ls)
+	if before {
+		r.skip(hi, lo, true)
+	}
 	// place[a] is the slot of ls under axle a (then under the ends of the
 	// uniform load), advanced as the stretches of positions go by.
 	places := slices.Grow(r.places[:0], len(r.axles)+2)[:len(r.axles)+2]
@@ -94,7 +157,7 @@ func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
 		if b < a {
 			continue
 		}
-		if b == a && len(br) > 2 {
+		if b == a && total > 2 {
 			continue // two breaks at one front: the stretches either side hold it
 		}
 		mid := 0.5 * (a + b)
@@ -145,10 +208,76 @@ func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side) {
 			}
 		}
 	}
+	if after {
+		r.skip(hi, lo, false)
+	}
 	if len(jumps) > 0 {
 		r.scanJumps(ls, hi, lo, jumps)
 	}
 	r.scanMeetings(ls, hi, lo, jumps)
+}
+
+// cut is what a windowed scan leaves out (see window.go): the positions
+// whose loads all stand off the stretch of the window where its lines
+// matter, their fronts before lo or after hi; bound[i] bounds their
+// effect on line i: far[i], what the lines give there, plus noise[i], the
+// round-off the whole member's scan may have carried there (0 for a short
+// train of axles alone, whose every position is summed afresh).
+type cut struct {
+	on                bool
+	lo, hi            float64
+	bound, far, noise []float64
+}
+
+// cutMargin is the margin, in key tolerances, by which a position left out
+// keeps its loads off the stretch where the lines matter: a load within
+// the tolerance of a key point stands on it.
+const cutMargin = 4
+
+// setCut sets r.cut for a scan of ls in window w (nil: none).
+func (r *run) setCut(ls *lines, w *window) {
+	r.cut.on = w != nil && !w.whole
+	if !r.cut.on {
+		return
+	}
+	margin := cutMargin * r.tolerance
+	r.cut.lo, r.cut.hi = w.near-r.maxOff-margin, w.far-r.minOff+margin
+	// A position off the stretch: each axle at most beyond per newton;
+	// the uniform load's integral over its length and, at most, the two
+	// pieces its ends stand on. Round-off (farRoundOff) per newton of
+	// the axles, and of the uniform load over the member.
+	loads := 0.0
+	for _, ax := range r.axles {
+		loads += ax.load
+	}
+	spread, round, rel := loads, loads, 0.0
+	if r.uniform {
+		spread += r.q * (r.u1 - r.u0 + 2*w.longest)
+		round += r.q * (ls.last - ls.first)
+		rel = farRoundOff
+	}
+	if len(r.axles) > shortTrain {
+		rel = farRoundOffLong
+	}
+	n := ls.n
+	r.cut.bound = slices.Grow(r.cut.bound[:0], n)[:n]
+	r.cut.far = slices.Grow(r.cut.far[:0], n)[:n]
+	r.cut.noise = slices.Grow(r.cut.noise[:0], n)[:n]
+	for i := range n {
+		r.cut.far[i], r.cut.noise[i] = w.beyond[i]*spread, rel*w.size[i]*round
+		r.cut.bound[i] = r.cut.far[i] + r.cut.noise[i]
+	}
+}
+
+// skip takes into hi and lo positions the window leaves out, from the
+// run's first position or not (fromStart).
+func (r *run) skip(hi, lo []extreme, fromStart bool) {
+	first := Placement{r.direction, r.s0}
+	for i, b := range r.cut.bound {
+		zero := r.cut.far[i] == 0
+		hi[i].skip(b, zero, true, first, fromStart)
+		lo[i].skip(b, zero, false, first, fromStart)
+	}
 }
 
 // clearOfEnds is front, an end of the stretch of positions from a to b,
@@ -288,6 +417,7 @@ func (r *run) setKeys(keys []float64) {
 	if r.uniform {
 		r.offsets = append(r.offsets, r.u0, r.u1)
 	}
+	r.minOff, r.maxOff = slices.Min(r.offsets), slices.Max(r.offsets)
 	r.sortedOffsets = r.sortedOffsets[:0]
 	for _, ax := range r.axles {
 		r.sortedOffsets = append(r.sortedOffsets, ax.offset)
@@ -320,19 +450,35 @@ func (r *run) within(out []float64, x float64) []float64 {
 }
 
 // mergeBreaks returns the run's breaks at the key points merged with those
-// at the point ls reads, in order.
-func (r *run) mergeBreaks(ls *lines) []float64 {
+// at the point ls reads, in order, and how many there are in all. Where
+// r.cut leaves positions out, it returns those from the last break before
+// the cut's first front to the first after its last, and whether breaks
+// are left out before them and after.
+func (r *run) mergeBreaks(ls *lines) (br []float64, before, after bool, total int) {
 	moving := r.moving[:0]
 	if _, key := slices.BinarySearch(r.keys, ls.at); !key {
 		moving = r.within(moving, ls.at)
 		slices.Sort(moving)
 	}
 	r.moving = moving
-	br := r.breaks[:0]
+	fixed := r.fixed
+	total = len(fixed) + len(moving)
+	if r.cut.on {
+		first, _ := slices.BinarySearch(fixed, r.cut.lo)
+		last, _ := slices.BinarySearch(fixed, r.cut.hi)
+		first, last = max(first-1, 0), min(last, len(fixed)-1)
+		before, after = first > 0, last < len(fixed)-1
+		fixed = fixed[first : last+1]
+	}
+	br = r.breaks[:0]
 	i, j := 0, 0
-	for i < len(r.fixed) || j < len(moving) {
-		if j == len(moving) || (i < len(r.fixed) && r.fixed[i] <= moving[j]) {
-			br = append(br, r.fixed[i])
+	for j < len(moving) && moving[j] < fixed[0] {
+		j++
+	}
+	end := fixed[len(fixed)-1]
+	for i < len(fixed) || (j < len(moving) && moving[j] <= end) {
+		if j == len(moving) || moving[j] > end || (i < len(fixed) && fixed[i] <= moving[j]) {
+			br = append(br, fixed[i])
 			i++
 		} else {
 			br = append(br, moving[j])
@@ -340,7 +486,7 @@ func (r *run) mergeBreaks(ls *lines) []float64 {
 		}
 	}
 	r.breaks = br
-	return br
+	return br, before, after, total
 }
 
 // advance moves *p on to the slot of ls holding sigma (see terms: slot 0
@@ -373,7 +519,7 @@ func (ls *lines) advance(p *int, sigma float64) int {
 func (r *run) scanJumps(ls *lines, hi, lo []extreme, sides []fem.Side) {
 	first, last := r.s0, r.front(r.n-1)
 	tol := keyTolerance * ls.length
-	onEnd := ls.at-ls.bounds[0] <= tol || ls.bounds[ls.pieces()]-ls.at <= tol
+	onEnd := ls.at-ls.first <= tol || ls.last-ls.at <= tol
 	for a, ax := range r.axles {
 		front := ls.at - ax.offset
 		switch {
@@ -404,7 +550,7 @@ func (r *run) scanMeetings(ls *lines, hi, lo []extreme, sides []fem.Side) {
 		return
 	}
 	first, last := r.s0, r.front(r.n-1)
-	points := append(r.jumpPoints[:0], ls.bounds[0], ls.bounds[ls.pieces()])
+	points := append(r.jumpPoints[:0], ls.first, ls.last)
 	if len(sides) > 0 && ls.at > points[0]+r.tolerance && ls.at < points[1]-r.tolerance {
 		points = append(points, ls.at)
 	}
@@ -452,6 +598,10 @@ func (r *run) axlesNear(off float64) int {
 // it) but axle at (−1 for none), which stands on ls.at, on each of the
 // sides given.
 func (r *run) evaluate(ls *lines, hi, lo []extreme, front float64, at int, sides []fem.Side) {
+	if r.cut.on && (front < r.cut.lo || front > r.cut.hi) {
+		r.skip(hi, lo, false)
+		return
+	}
 	place := Placement{r.direction, front}
 	for i := range ls.n {
 		base := 0.0
@@ -480,7 +630,7 @@ func (r *run) evaluate(ls *lines, hi, lo []extreme, front float64, at int, sides
 // zero for a load off the member (a train partly off it, Train.OffEnds).
 func (ls *lines) valueOn(i int, x float64) float64 {
 	tol := keyTolerance * ls.length
-	if x < ls.bounds[0]-tol || x > ls.bounds[ls.pieces()]+tol {
+	if x < ls.first-tol || x > ls.last+tol {
 		return 0
 	}
 	return ls.value(i, x, fem.Right)
@@ -489,7 +639,7 @@ func (ls *lines) valueOn(i int, x float64) float64 {
 // integralOn is ∫ line i from the member's start to x, with x taken back
 // onto the member: a uniform load beyond its ends carries nothing.
 func (ls *lines) integralOn(i int, x float64) float64 {
-	return ls.integral(i, min(max(x, ls.bounds[0]), ls.bounds[ls.pieces()]))
+	return ls.integral(i, min(max(x, ls.first), ls.last))
 }
 
 // EnvelopeQuantities are the quantities a train's envelope holds: those a
@@ -686,7 +836,8 @@ const parallelStations = 2048
 // mesh, with the peaks added: see peaks) over every position of its front
 // along its run; the step t gives (or one derived from mesh) spaces the
 // positions it is shown at. Its cost grows with the stations, the axles
-// and the key points, not with the step (see the package comment).
+// and the key points near each station (window.go), not with the step
+// (see the package comment).
 func (in *Influence) Envelope(t *Train, mesh fem.Mesh, stations []float64) (*Envelope, error) {
 	s, runs, err := in.bendingRuns(t, mesh)
 	if err != nil {
@@ -953,10 +1104,62 @@ func workRuns(runs []run, s *sweeps) []run {
 	return out
 }
 
+// scanRuns sets hi and lo to the extremes of the lines of the readers rs
+// (reading at one point) over every position of the runs: scanned in the
+// window of the member where the lines matter, w (see window.go), or,
+// where the positions it leaves out might have given an extreme, again
+// over the stretch that holds the point and every load of every position
+// (the whole member but for a train whose run is short); ls holds the
+// lines filled.
+func scanRuns(s *sweeps, ls *lines, w *window, rs []reader, runs []run, hi, lo []extreme, jumps []fem.Side) {
+	r0 := &runs[0]
+	margin := cutMargin * r0.tolerance
+	w.set(s, rs, r0.maxOff-r0.minOff+margin)
+	ls.fillWindow(s, rs, w.lo, w.hi)
+	for {
+		clear(hi)
+		clear(lo)
+		for r := range runs {
+			runs[r].scan(ls, hi, lo, jumps, w)
+		}
+		if w == nil || settled(hi, lo, &runs[0].cut) {
+			return
+		}
+		first, last := w.lo, w.hi
+		for _, r := range runs {
+			first = min(first, max(s.stretchAt(r.s0+r.minOff-margin)-1, 0))
+			last = max(last, min(s.stretchAt(r.front(r.n-1)+r.maxOff+margin)+1, len(s.keys)-2))
+		}
+		ls.fillWindow(s, rs, first, last)
+		w = nil
+	}
+}
+
+// settled reports whether the extremes hi and lo of a windowed scan that
+// left out c are those of the whole member's: none is unsure (extreme),
+// or, where a scan of the whole member would itself have carried
+// round-off (c.noise), the positions left out could have given no more
+// than that round-off, and those taken gave an extreme. A line that is
+// zero to round-off at the point (the deflection over a rigid support
+// under a uniform load) then names a position of its own round-off,
+// as a scan of the whole member names one of its round-off.
+func settled(hi, lo []extreme, c *cut) bool {
+	for i := range hi {
+		if !hi[i].unsure && !lo[i].unsure {
+			continue
+		}
+		if !(c.noise[i] > 0 && c.far[i] <= c.noise[i] && hi[i].set && lo[i].set) {
+			return false
+		}
+	}
+	return true
+}
+
 // envelopeStations fills stations from to to of e.
 func (in *Influence) envelopeStations(s *sweeps, e *Envelope, from, to int) {
 	runs := workRuns(e.runs, s)
 	var ls lines
+	var w window
 	var rs [4]reader
 	var hi, lo [4]extreme
 	K := len(s.keys) - 1
@@ -984,12 +1187,8 @@ func (in *Influence) envelopeStations(s *sweeps, e *Envelope, from, to int) {
 				rs[q] = s.stationReader(i, tau, row, scale)
 				rs[q].x = x
 				rs[q].jump = in.jump(Target{Quantity: EnvelopeQuantities[q], X: x, Side: side})
-				hi[q], lo[q] = extreme{}, extreme{}
 			}
-			ls.fill(s, rs[:])
-			for r := range runs {
-				runs[r].scan(&ls, hi[:], lo[:], bothSides)
-			}
+			scanRuns(s, &ls, &w, rs[:], runs, hi[:], lo[:], bothSides)
 			seg := m.Segments[segmentAt(m, x, side)].Section
 			stress := seg.FibreDistance / seg.SecondMoment
 			for q := range EnvelopeQuantities {
@@ -1044,7 +1243,7 @@ func (in *Influence) Worst(t *Train, mesh fem.Mesh, tg Target) (hi, lo Extreme, 
 		}
 	}
 	for i := range runs {
-		runs[i].scan(&ls, h, l, jumps)
+		runs[i].scan(&ls, h, l, jumps, nil)
 	}
 	x := tg.X
 	if tg.Reaction {
@@ -1057,17 +1256,15 @@ func (in *Influence) Worst(t *Train, mesh fem.Mesh, tg Target) (hi, lo Extreme, 
 func (in *Influence) envelopeReactions(s *sweeps, e *Envelope) {
 	runs := workRuns(e.runs, s)
 	var ls lines
+	var w window
 	for i, sup := range in.model.Supports {
 		for _, d := range []fem.Dof{fem.Transverse, fem.Rotation} {
 			if !sup.Holds(d) {
 				continue
 			}
 			rs := []reader{s.reactionReader(s.keyIndex(sup.X), d)}
-			ls.fill(s, rs)
 			hi, lo := []extreme{{}}, []extreme{{}}
-			for r := range runs {
-				runs[r].scan(&ls, hi, lo, nil)
-			}
+			scanRuns(s, &ls, &w, rs, runs, hi, lo, nil)
 			e.Reactions = append(e.Reactions, ReactionEnvelope{Support: i, Motion: d,
 				Max: hi[0].value, Min: lo[0].value, MaxAt: hi[0].at, MinAt: lo[0].at})
 		}

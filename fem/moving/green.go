@@ -81,6 +81,10 @@ type sweeps struct {
 	// left and right states joined by a unit load at τ from the stretch's
 	// start are zlPlus[j]·a(τ) and zrPlus[j]·b(τ).
 	jump [][4]state
+	// The bounds of the lines' pieces (setBounds) and the longest
+	// stretch, m: what a window needs.
+	pieceAfter, pieceBefore, afterBound, beforeBound []sym2
+	longest                                          float64
 }
 
 // newSweeps sets up and runs the sweeps of problem pr for m, a valid model.
@@ -407,6 +411,7 @@ func (s *sweeps) run() error {
 			return err
 		}
 	}
+	s.setBounds()
 	return nil
 }
 

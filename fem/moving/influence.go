@@ -369,13 +369,16 @@ func (s *sweeps) reactionReader(k int, d fem.Dof) reader {
 
 // lines are n influence lines on common pieces between bounds (m), each
 // piece's cubic in τ = (s − start)/ℓ per newton, with the integral of each
-// line from 0 to the piece's start (per newton, times m).
+// line from the first bound to the piece's start (per newton, times m).
+// The pieces cover the member, or a window of it (fillWindow).
 type lines struct {
 	n      int
 	length float64 // ℓ, m
 	bounds []float64
 	coef   []poly    // [piece·n + line]
 	integ  []float64 // [piece·n + line]
+	// first and last are the member's ends, m.
+	first, last float64
 	// at is the point the readers read (where a line may jump).
 	at float64
 	// jumps is, per line, how much it rises as the load crosses at
@@ -389,12 +392,19 @@ type lines struct {
 func (ls *lines) pieces() int { return len(ls.bounds) - 1 }
 
 // fill sets ls to the lines of the readers rs, which must read at one
-// point. It reuses ls's slices, so a loop over stations allocates nothing.
-func (ls *lines) fill(s *sweeps, rs []reader) {
+// point, along the whole member. It reuses ls's slices, so a loop over
+// stations allocates nothing.
+func (ls *lines) fill(s *sweeps, rs []reader) { ls.fillWindow(s, rs, 0, len(s.keys)-2) }
+
+// fillWindow is fill over stretches lo to hi of s alone, which must hold
+// the point read: each piece there as fill finds it, to the bit, but the
+// integrals, taken from the window's start.
+func (ls *lines) fillWindow(s *sweeps, rs []reader, lo, hi int) {
 	K := len(s.keys) - 1
 	n := len(rs)
 	r0 := &rs[0]
 	ls.n, ls.length = n, s.length
+	ls.first, ls.last = s.keys[0], s.keys[K]
 	ls.at = r0.x
 	ls.jumps = ls.jumps[:0]
 	for i := range n {
@@ -407,19 +417,19 @@ func (ls *lines) fill(s *sweeps, rs []reader) {
 	// after, going up by ml).
 	for i := range n {
 		row := rs[i].beforeRow
-		for j := r0.before; j >= 0; j-- {
+		for j := r0.before; j >= lo; j-- {
 			ls.rows[j*n+i] = row
 			row = rowTimes(row, s.mr[j])
 		}
 		row = rs[i].afterRow
-		for j := r0.after; j < K; j++ {
+		for j := r0.after; j <= hi; j++ {
 			if j > r0.after {
 				row = rowTimes(row, s.ml[j])
 			}
 			ls.rows[(K+j)*n+i] = row
 		}
 	}
-	for j := range K {
+	for j := lo; j <= hi; j++ {
 		a, b := s.keys[j], s.keys[j+1]
 		switch {
 		case j < r0.at:
@@ -431,7 +441,7 @@ func (ls *lines) fill(s *sweeps, rs []reader) {
 			ls.addPiece(s, rs, j, ls.at, b, true, r0.tau)
 		}
 	}
-	// Integrals from 0 to each piece's start.
+	// Integrals from the first bound to each piece's start.
 	ls.integ = slices.Grow(ls.integ[:0], len(ls.coef))[:len(ls.coef)]
 	for i := range n {
 		ls.integ[i] = 0
@@ -514,9 +524,9 @@ func (ls *lines) value(i int, s float64, side fem.Side) float64 {
 func (ls *lines) standing(i int, side fem.Side) float64 {
 	tol := keyTolerance * ls.length
 	switch {
-	case side == fem.Left && ls.at-ls.bounds[0] <= tol:
+	case side == fem.Left && ls.at-ls.first <= tol:
 		return ls.value(i, ls.at, fem.Right) - ls.jumps[i]
-	case side == fem.Right && ls.bounds[ls.pieces()]-ls.at <= tol:
+	case side == fem.Right && ls.last-ls.at <= tol:
 		return ls.value(i, ls.at, fem.Left) + ls.jumps[i]
 	}
 	return ls.value(i, ls.at, side)

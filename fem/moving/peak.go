@@ -78,7 +78,10 @@ func (in *Influence) axlePeaks(s *sweeps, e *Envelope) []float64 {
 						rs[q] = s.stationReader(i, tau, row, scale)
 						rs[q].x = x
 					}
-					ls.fill(s, rs[:])
+					// The lines under the train alone (to the bit as over
+					// the whole member, but a uniform load's integrals).
+					margin := cutMargin * r.tolerance
+					ls.fillWindow(s, rs[:], max(s.stretchAt(front+r.minOff-margin)-1, 0), min(s.stretchAt(front+r.maxOff+margin)+1, len(s.keys)-2))
 					var base [2]float64
 					for b, other := range r.axles {
 						if b != a {

@@ -401,6 +401,10 @@ type run struct {
 	axleTerms, uniformTerms   []poly
 	short                     []bool
 	tolerance                 float64 // round-off within which a front that puts an axle on a point is on the run, m
+	// minOff and maxOff are the least and the greatest offset of a load
+	// (setKeys); cut is what a windowed scan leaves out (scan).
+	minOff, maxOff float64
+	cut            cut
 }
 
 // runs are t's positions on a member of length L with the given step (0
