@@ -135,15 +135,7 @@ func TestNegativeZeroFactorIsPlainZero(t *testing.T) {
 	p.Model.Combinations[0].Factors[1].Factor = negativeZero
 	p.Trains = []moving.Train{{Name: "trolley", Axles: []moving.Axle{{Load: 12e3}}, Step: 0.5}}
 	p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 0, Factor: negativeZero}}
-	src, err := Analyse(context.Background(), p)
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := CasesResults(src.Analysis)
-	if err != nil {
-		t.Fatal(err)
-	}
-	trains := r.WithTrains(src)
+	r, trains := casesWithTrains(t, p)
 	factors := map[string]float64{}
 	for _, f := range r.Combinations[0].Factors {
 		factors[f.Case+f.Train] = f.Factor
@@ -300,6 +292,21 @@ func TestCaseTakingTemperatureDifferences(t *testing.T) {
 	}) {
 		t.Errorf("the text does not say case sun takes the temperature differences:\n%s", text.String())
 	}
+}
+
+// casesWithTrains analyses p and returns its cases' results with its
+// trains taken in (CasesJSON.WithTrains), and the trains' results.
+func casesWithTrains(t *testing.T, p *storage.Project) (*CasesJSON, []TrainResult) {
+	t.Helper()
+	src, err := Analyse(context.Background(), p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := CasesResults(src.Analysis)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return r, r.WithTrains(src)
 }
 
 // casesResults analyses p and returns its cases' results.

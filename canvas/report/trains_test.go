@@ -591,15 +591,7 @@ func TestTrainAtFactorZeroGovernsNothing(t *testing.T) {
 	}
 	p.Trains = []moving.Train{{Name: "trolley", Axles: []moving.Axle{{Load: 12e3}}, Step: 0.5}}
 	p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 0, Factor: 0}}
-	src, err := Analyse(context.Background(), p)
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := CasesResults(src.Analysis)
-	if err != nil {
-		t.Fatal(err)
-	}
-	r.WithTrains(src)
+	r, _ := casesWithTrains(t, p)
 	for _, q := range r.Envelope.Quantities {
 		for _, g := range []GoverningJSON{q.Max, q.Min} {
 			if g.Train != nil {
@@ -631,15 +623,7 @@ func TestTrainExtremeSaysTheSideOfAJump(t *testing.T) {
 	}
 	p.Trains = []moving.Train{{Name: "trolley", Axles: []moving.Axle{{Load: 30e3}, {Load: 30e3, Spacing: 1}}, Step: 0.5}}
 	p.Model.Combinations[0].Trains = []fem.TrainFactor{{Train: 0, Factor: 1.5}}
-	src, err := Analyse(context.Background(), p)
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := CasesResults(src.Analysis)
-	if err != nil {
-		t.Fatal(err)
-	}
-	r.WithTrains(src)
+	r, _ := casesWithTrains(t, p)
 	for _, q := range r.Envelope.Quantities {
 		if q.Quantity != fem.QShearForce {
 			continue

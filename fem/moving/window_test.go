@@ -100,14 +100,7 @@ func wholeMember(s *sweeps, rs []reader, runs []run, jumps []fem.Side) (hi, lo [
 func TestWindowedScanMatchesWholeMember(t *testing.T) {
 	for _, c := range windowCases() {
 		t.Run(c.name, func(t *testing.T) {
-			p, err := fem.Prepare(c.m)
-			if err != nil {
-				t.Fatal(err)
-			}
-			in, err := New(p)
-			if err != nil {
-				t.Fatal(err)
-			}
+			p, in := prepared(t, c.m)
 			s := in.bending
 			all, err := c.train.runs(c.m.Length(), p.Mesh())
 			if err != nil {
@@ -178,14 +171,7 @@ func TestWindowedScanMatchesWholeMember(t *testing.T) {
 func TestWindowBoundHoldsTheLines(t *testing.T) {
 	for _, c := range windowCases() {
 		t.Run(c.name, func(t *testing.T) {
-			p, err := fem.Prepare(c.m)
-			if err != nil {
-				t.Fatal(err)
-			}
-			in, err := New(p)
-			if err != nil {
-				t.Fatal(err)
-			}
+			p, in := prepared(t, c.m)
 			s := in.bending
 			edges := 0
 			for _, x := range Stations(p.Mesh()) {
@@ -343,14 +329,7 @@ func TestSkipZeroFromTheStart(t *testing.T) {
 // envelope's cost grows with the supports, not their square.
 func TestWindowSettlesOnEqualSpans(t *testing.T) {
 	m := manySpans(100, 1)
-	p, err := fem.Prepare(m)
-	if err != nil {
-		t.Fatal(err)
-	}
-	in, err := New(p)
-	if err != nil {
-		t.Fatal(err)
-	}
+	p, in := prepared(t, m)
 	s := in.bending
 	tr := Train{Axles: []Axle{{Load: 42e3}, {Load: 42e3, Spacing: 3.2}}, Direction: BothWays}
 	all, err := tr.runs(m.Length(), p.Mesh())
