@@ -294,9 +294,8 @@ func TestCaseTakingTemperatureDifferences(t *testing.T) {
 	}
 }
 
-// casesWithTrains analyses p and returns its cases' results with its
-// trains taken in (CasesJSON.WithTrains), and the trains' results.
-func casesWithTrains(t *testing.T, p *storage.Project) (*CasesJSON, []TrainResult) {
+// analysedCases analyses p and returns the analysis and its cases' results.
+func analysedCases(t *testing.T, p *storage.Project) (Source, *CasesJSON) {
 	t.Helper()
 	src, err := Analyse(context.Background(), p)
 	if err != nil {
@@ -306,20 +305,21 @@ func casesWithTrains(t *testing.T, p *storage.Project) (*CasesJSON, []TrainResul
 	if err != nil {
 		t.Fatal(err)
 	}
+	return src, r
+}
+
+// casesWithTrains analyses p and returns its cases' results with its
+// trains taken in (CasesJSON.WithTrains), and the trains' results.
+func casesWithTrains(t *testing.T, p *storage.Project) (*CasesJSON, []TrainResult) {
+	t.Helper()
+	src, r := analysedCases(t, p)
 	return r, r.WithTrains(src)
 }
 
 // casesResults analyses p and returns its cases' results.
 func casesResults(t *testing.T, p *storage.Project) *CasesJSON {
 	t.Helper()
-	src, err := Analyse(context.Background(), p)
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := CasesResults(src.Analysis)
-	if err != nil {
-		t.Fatal(err)
-	}
+	_, r := analysedCases(t, p)
 	return r
 }
 

@@ -99,14 +99,7 @@ func TestTrainInACombination(t *testing.T) {
 	// The load-case envelope takes the combination with its train where it
 	// goes beyond the cases' envelope, naming the train's position, and the
 	// findings say the checks leave the train out.
-	src, err := Analyse(context.Background(), p)
-	if err != nil {
-		t.Fatal(err)
-	}
-	cases, err := CasesResults(src.Analysis)
-	if err != nil {
-		t.Fatal(err)
-	}
+	src, cases := analysedCases(t, p)
 	cases.WithTrains(src)
 	for _, q := range cases.Envelope.Quantities {
 		if q.Quantity != fem.QBendingMoment {

@@ -1155,6 +1155,18 @@ func settled(hi, lo []extreme, c *cut) bool {
 	return true
 }
 
+// stationReaders sets rs, one per row of envelopeRows, to read the
+// envelope's quantities at x, on side where they jump.
+func (in *Influence) stationReaders(s *sweeps, x float64, side fem.Side, rs []reader) {
+	i, tau := s.locate(x, side)
+	for q, row := range envelopeRows {
+		_, scale, _ := s.quantityRow(EnvelopeQuantities[q])
+		rs[q] = s.stationReader(i, tau, row, scale)
+		rs[q].x = x
+		rs[q].jump = in.jump(Target{Quantity: EnvelopeQuantities[q], X: x, Side: side})
+	}
+}
+
 // envelopeStations fills stations from to to of e.
 func (in *Influence) envelopeStations(s *sweeps, e *Envelope, from, to int) {
 	runs := workRuns(e.runs, s)
@@ -1181,13 +1193,7 @@ func (in *Influence) envelopeStations(s *sweeps, e *Envelope, from, to int) {
 		}
 		first := true
 		for _, side := range sides {
-			i, tau := s.locate(x, side)
-			for q, row := range envelopeRows {
-				_, scale, _ := s.quantityRow(EnvelopeQuantities[q])
-				rs[q] = s.stationReader(i, tau, row, scale)
-				rs[q].x = x
-				rs[q].jump = in.jump(Target{Quantity: EnvelopeQuantities[q], X: x, Side: side})
-			}
+			in.stationReaders(s, x, side, rs[:])
 			scanRuns(s, &ls, &w, rs[:], runs, hi[:], lo[:], bothSides)
 			seg := m.Segments[segmentAt(m, x, side)].Section
 			stress := seg.FibreDistance / seg.SecondMoment

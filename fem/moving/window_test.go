@@ -130,14 +130,8 @@ func TestWindowedScanMatchesWholeMember(t *testing.T) {
 			var rows []int
 			for _, x := range Stations(p.Mesh()) {
 				for _, side := range []fem.Side{fem.Left, fem.Right} {
-					i, tau := s.locate(x, side)
 					rs := make([]reader, len(envelopeRows))
-					for q, row := range envelopeRows {
-						_, sc, _ := s.quantityRow(EnvelopeQuantities[q])
-						rs[q] = s.stationReader(i, tau, row, sc)
-						rs[q].x = x
-						rs[q].jump = in.jump(Target{Quantity: EnvelopeQuantities[q], X: x, Side: side})
-					}
+					in.stationReaders(s, x, side, rs)
 					compare(rs, bothSides, func(i int) int { return i })
 					rows = append(rows, 0, 1, 2, 3)
 				}
@@ -339,14 +333,8 @@ func TestWindowSettlesOnEqualSpans(t *testing.T) {
 	runs := workRuns(all, s)
 	for _, x := range Stations(p.Mesh()) {
 		for _, side := range []fem.Side{fem.Left, fem.Right} {
-			i, tau := s.locate(x, side)
 			rs := make([]reader, len(envelopeRows))
-			for q, row := range envelopeRows {
-				_, sc, _ := s.quantityRow(EnvelopeQuantities[q])
-				rs[q] = s.stationReader(i, tau, row, sc)
-				rs[q].x = x
-				rs[q].jump = in.jump(Target{Quantity: EnvelopeQuantities[q], X: x, Side: side})
-			}
+			in.stationReaders(s, x, side, rs)
 			var w window
 			var ls lines
 			w.set(s, rs, runs[0].maxOff-runs[0].minOff)
