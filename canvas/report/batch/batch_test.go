@@ -8,6 +8,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"slices"
 	"strings"
 	"sync/atomic"
 	"testing"
@@ -100,7 +101,7 @@ func TestLineMatchesHandbookDeflections(t *testing.T) {
 			near(t, "span", d.Span, L, 1e-12)
 			near(t, "span ratio n", float64(d.Ratio), L/c.w, 1e-9)
 			near(t, "limit ratio", d.LimitRatio, c.limitN, 1e-12)
-			near(t, "utilisation", d.Utilisation, c.w/(L/c.limitN), 1e-9)
+			near(t, "utilisation", float64(d.Utilisation), c.w/(L/c.limitN), 1e-9)
 			// No allowable stress is given, so the deflection governs, and fails.
 			if m.Governing == nil || *m.Governing != d.Check || m.Status != Failed {
 				t.Errorf("governing %+v, status %v: want the deflection check, failed", m.Governing, m.Status)
@@ -130,10 +131,10 @@ func TestLinesAgreeWithSingleFileAnalysis(t *testing.T) {
 		failed := false
 		for _, r := range src.Analysis.Checks {
 			failed = failed || r.Status == check.Fail
-			if r.Kind != check.Design || r.Limit <= 0 {
+			if r.Kind != check.Design || r.Status == check.Info {
 				continue
 			}
-			c := &Check{r.Name, r.Value / r.Limit}
+			c := &Check{Name: r.Name, Utilisation: Number(r.Value / r.Limit)}
 			if governing == nil || c.Utilisation > governing.Utilisation {
 				governing = c
 			}
@@ -489,6 +490,128 @@ func TestLimitRatioIsTheFilesN(t *testing.T) {
 		lines, _ := runAll(t, []string{file}, Options{})
 		if d := lines[0].Deflection; d == nil || d.LimitRatio != n {
 			t.Errorf("deflection_limit %g on a 6.096 m span: line %+v, want limit ratio %g exactly", n, d, n)
+		}
+	}
+}
+
+// strained writes simply_supported_uniform.json, changed by edit, to name
+// in dir and returns its path. The file: L = 4 m, q = 10 kN/m,
+// I = 8e-6 m⁴, fibre distance c = 0.1 m, so its largest stress is
+// qL²/8·c/I = 250 MPa (Gere & Goodno, Mechanics of Materials, appendix D,
+// from memory) and its deflection 5qL⁴/(384EI) = 20.83 mm against span/360
+// = 11.11 mm, a utilisation of 1.875 (same source).
+func strained(t *testing.T, dir, name string, edit func(p *storage.Project)) string {
+	t.Helper()
+	p, err := storage.Load("../../../testdata/simply_supported_uniform.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	p.Notes.Member = name
+	edit(p)
+	text, err := storage.Marshal(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(dir, name+".json")
+	if err := os.WriteFile(path, text, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	return path
+}
+
+// nonFinite are members whose stress check has a utilisation that is not
+// a finite number, with the check that must govern: IEEE 754 arithmetic
+// (from memory) overflows 250 MPa over 1e-305 Pa (past 1.8e308) to +Inf,
+// rounds 1e-30 Pa over 1e300 (below 4.9e-324) to 0, so that 250 MPa over
+// it is +Inf and the 0 MPa of an unloaded overhang over it (no load beyond
+// the support, no moment there: statics, from memory) 0/0, NaN.
+func nonFinite(t *testing.T, dir string) []struct {
+	file, check string
+	want        float64
+} {
+	t.Helper()
+	allowable := func(stress, factor float64) func(p *storage.Project) {
+		return func(p *storage.Project) {
+			p.Model.Segments[0].Material.Allowable, p.View.SafetyFactor = stress, factor
+		}
+	}
+	return []struct {
+		file, check string
+		want        float64
+	}{
+		{strained(t, dir, "overflow", allowable(1e-5, 1e300)), "Stress, segment 1", math.Inf(1)},
+		{strained(t, dir, "zero_limit", allowable(1e-30, 1e300)), "Stress, segment 1", math.Inf(1)},
+		{strained(t, dir, "undefined", func(p *storage.Project) {
+			allowable(300e6, 1e300)(p)
+			overhang := p.Model.Segments[0]
+			overhang.Start, overhang.End, overhang.Material.Allowable = 4, 5, 1e-30
+			p.Model.Segments = append(p.Model.Segments, overhang)
+		}), "Stress, segment 2", math.NaN()},
+	}
+}
+
+// sameUtilisation reports whether u is want, NaN for NaN.
+func sameUtilisation(u Number, want float64) bool {
+	return float64(u) == want || math.IsNaN(float64(u)) && math.IsNaN(want)
+}
+
+// A stress check whose utilisation is infinite, or undefined, governs its
+// member and the batch: it was left out, and the headline named a
+// deflection of 1.87 in another member.
+func TestNonFiniteUtilisationGoverns(t *testing.T) {
+	dir := t.TempDir()
+	ok := strained(t, dir, "deflects", allowable300)
+	for _, c := range nonFinite(t, dir) {
+		t.Run(filepath.Base(c.file), func(t *testing.T) {
+			for _, names := range [][]string{{c.file, ok}, {ok, c.file}} {
+				lines, sum := runAll(t, names, Options{})
+				m := lines[slices.Index(names, c.file)]
+				if g := m.Governing; g == nil || g.Name != c.check || !sameUtilisation(g.Utilisation, c.want) {
+					t.Errorf("%v: governing %+v, want %s of utilisation %g", names, g, c.check, c.want)
+				}
+				if h := sum.Highest; h == nil || h.File != c.file || h.Name != c.check || !sameUtilisation(h.Utilisation, c.want) {
+					t.Errorf("%v: highest utilisation %+v, want %s of %s, %g", names, h, c.check, c.file, c.want)
+				}
+			}
+		})
+	}
+}
+
+// allowable300 gives the member an allowable stress of 300 MPa, above its
+// 250 MPa, so that its deflection governs.
+func allowable300(p *storage.Project) { p.Model.Segments[0].Material.Allowable = 300e6 }
+
+// The check that governs: the largest utilisation, an infinite one above
+// every other, an undefined one (NaN) above every finite one; of equal
+// ones the first. Stave's own order: the worst a check can be.
+func TestSummaryGovernsInOrder(t *testing.T) {
+	inf, nan := math.Inf(1), math.NaN()
+	for _, c := range []struct {
+		utilisations []float64
+		want         int // the member that governs
+	}{
+		{[]float64{2, 3}, 1},
+		{[]float64{3, 2}, 0},
+		{[]float64{3, 3}, 0},
+		{[]float64{1.87, inf}, 1},
+		{[]float64{inf, 1e308}, 0},
+		{[]float64{inf, inf}, 0},
+		{[]float64{nan, 5}, 0},
+		{[]float64{5, nan}, 1},
+		{[]float64{nan, inf}, 1},
+		{[]float64{inf, nan}, 0},
+		{[]float64{nan, nan}, 0},
+	} {
+		var s Summary
+		for i, u := range c.utilisations {
+			mark := fmt.Sprint(i)
+			g := checkOf("Stress, segment 1", u)
+			s.add(&Member{File: mark + ".json", Mark: mark, Status: Failed, Governing: &g,
+				Deflection: &Deflection{Check: g}})
+		}
+		want := fmt.Sprint(c.want)
+		if s.Highest == nil || s.Highest.Mark != want || s.Deflection == nil || s.Deflection.Mark != want {
+			t.Errorf("%v: highest %+v, deflection %+v, want member %s", c.utilisations, s.Highest, s.Deflection, want)
 		}
 	}
 }

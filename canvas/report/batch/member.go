@@ -24,7 +24,8 @@ type Member struct {
 	// Problem says why a refused member has no results; "" otherwise.
 	Problem string `json:"problem,omitempty"`
 	// Governing is the design check (stress, deflection, buckling) of
-	// largest utilisation; nil when no design check has a limit.
+	// largest utilisation (as governs orders them); nil when no design
+	// check was made.
 	Governing *Check `json:"governing"`
 	// Deflection is the deflection check of largest utilisation; nil when
 	// deflection was not checked.
@@ -40,8 +41,39 @@ type Member struct {
 // Check is a design check and its utilisation, the checked value over
 // its limit: 1 at the limit.
 type Check struct {
-	Name        string  `json:"check"`
-	Utilisation float64 `json:"utilisation"`
+	Name string `json:"check"`
+	// Utilisation is +Inf where the limit is 0 (an allowable stress so small
+	// that over the safety factor it is 0) or the quotient overflows (over a
+	// safety factor of 1e300), NaN where it cannot be worked out (0 over a
+	// limit of 0); JSON writes either as null.
+	Utilisation Number `json:"utilisation"`
+	// NotFinite says why Utilisation is null in JSON: "infinite" or
+	// "undefined" (units.FormatG's words); "" where it is a number.
+	NotFinite string `json:"utilisation_not_finite,omitempty"`
+}
+
+// checkOf is the check named name of utilisation u.
+func checkOf(name string, u float64) Check {
+	c := Check{Name: name, Utilisation: Number(u)}
+	if math.IsInf(u, 0) || math.IsNaN(u) {
+		c.NotFinite = units.FormatG("%g", u)
+	}
+	return c
+}
+
+// governs reports whether utilisation u governs one of v: the larger does;
+// an infinite one governs every other, and an undefined one (NaN), whose
+// size is not known, every finite one, so that neither is left out of the
+// worst check. Of two that tie, v stays.
+func governs(u, v Number) bool {
+	a, b := float64(u), float64(v)
+	switch {
+	case math.IsNaN(a):
+		return !math.IsNaN(b) && !math.IsInf(b, 1)
+	case math.IsNaN(b):
+		return math.IsInf(a, 1)
+	}
+	return a > b
 }
 
 // Deflection is a deflection check as span/n.
@@ -52,7 +84,7 @@ type Deflection struct {
 	// Span is the length of the span or overhang checked, m.
 	Span float64 `json:"span_m"`
 	// Ratio is n in span/n, Span/Deflection.
-	Ratio Ratio `json:"span_ratio"`
+	Ratio Number `json:"span_ratio"`
 	// LimitRatio is n in the limit span/n (the cantilever's for an overhang).
 	LimitRatio float64 `json:"limit_ratio"`
 }
@@ -70,15 +102,17 @@ func (a *Accuracy) text() string {
 	return fmt.Sprintf("%s (%s)", units.FormatG("%.3g %%", 100*a.Ratio), a.Quantity)
 }
 
-// Ratio is n in span/n: +Inf when the span does not deflect, null in JSON.
-type Ratio float64
+// Number is a number that may not be finite, which JSON cannot hold: a
+// span ratio n in span/n, +Inf where the span does not deflect, and a
+// utilisation (Check.Utilisation).
+type Number float64
 
-// MarshalJSON writes an infinite ratio as null.
-func (r Ratio) MarshalJSON() ([]byte, error) {
-	if math.IsInf(float64(r), 0) {
+// MarshalJSON writes a number that is not finite as null.
+func (n Number) MarshalJSON() ([]byte, error) {
+	if math.IsInf(float64(n), 0) || math.IsNaN(float64(n)) {
 		return []byte("null"), nil
 	}
-	return json.Marshal(float64(r))
+	return json.Marshal(float64(n))
 }
 
 // Warning is one finding that failed or asks for caution.
@@ -116,20 +150,17 @@ func Line(file string, p *storage.Project, a *analysis.Analysis) Member {
 		return m.Warnings[i].Severity == analysis.Fail.String() && m.Warnings[j].Severity != analysis.Fail.String()
 	})
 	for _, r := range a.Checks {
-		if r.Kind != check.Design || !(r.Limit > 0) {
-			continue // verifications, and design checks without a limit (no allowable stress given)
+		if r.Kind != check.Design || r.Status == check.Info {
+			continue // verifications, and design checks not made (no allowable stress given)
 		}
-		u := Check{r.Name, r.Value / r.Limit}
-		if math.IsNaN(u.Utilisation) || math.IsInf(u.Utilisation, 0) {
-			continue
-		}
-		if m.Governing == nil || u.Utilisation > m.Governing.Utilisation {
+		u := checkOf(r.Name, r.Value/r.Limit)
+		if m.Governing == nil || governs(u.Utilisation, m.Governing.Utilisation) {
 			m.Governing = &u
 		}
-		if strings.HasPrefix(r.Name, deflectionCheck) && (m.Deflection == nil || u.Utilisation > m.Deflection.Utilisation) {
+		if strings.HasPrefix(r.Name, deflectionCheck) && (m.Deflection == nil || governs(u.Utilisation, m.Deflection.Utilisation)) {
 			span := r.Span[1] - r.Span[0]
 			m.Deflection = &Deflection{Check: u, Deflection: r.Value, Span: span,
-				Ratio: Ratio(span / r.Value), LimitRatio: r.SpanRatio}
+				Ratio: Number(span / r.Value), LimitRatio: r.SpanRatio}
 		}
 	}
 	return m

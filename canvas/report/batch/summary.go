@@ -10,7 +10,8 @@ type Summary struct {
 	Refused int `json:"refused"`
 	// Worst is the worst status of any member (OK for an empty batch).
 	Worst Status `json:"worst_status"`
-	// Highest is the member with the design check of largest utilisation;
+	// Highest is the member with the design check of largest utilisation
+	// (as governs orders them: an infinite one first, then an undefined one);
 	// nil when no member has one.
 	Highest *GoverningMember `json:"highest_utilisation"`
 	// Deflection is the member with the deflection check of largest
@@ -59,10 +60,10 @@ func (s *Summary) add(m *Member) {
 	}
 	s.Worst = max(s.Worst, m.Status)
 	who := Who{m.File, m.Mark}
-	if g := m.Governing; g != nil && (s.Highest == nil || g.Utilisation > s.Highest.Utilisation) {
+	if g := m.Governing; g != nil && (s.Highest == nil || governs(g.Utilisation, s.Highest.Utilisation)) {
 		s.Highest = &GoverningMember{who, *g}
 	}
-	if d := m.Deflection; d != nil && (s.Deflection == nil || d.Utilisation > s.Deflection.Utilisation) {
+	if d := m.Deflection; d != nil && (s.Deflection == nil || governs(d.Utilisation, s.Deflection.Utilisation)) {
 		s.Deflection = &DeflectionMember{who, *d}
 	}
 }

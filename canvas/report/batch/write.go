@@ -92,7 +92,7 @@ type textWriter struct {
 func (t *textWriter) Member(m Member) error {
 	mark, governing, utilisation, deflection, accuracy := dash(m.Mark), "-", "-", "-", "-"
 	if g := m.Governing; g != nil {
-		governing, utilisation = g.Name, check.UtilisationText(g.Utilisation)
+		governing, utilisation = g.Name, check.UtilisationText(float64(g.Utilisation))
 	}
 	if d := m.Deflection; d != nil {
 		deflection = deflectionText(d)
@@ -128,6 +128,15 @@ func dash(s string) string {
 	return s
 }
 
+// highestText is the summary's highest utilisation u: as the table writes
+// it, and, where it is undefined, that it could not be worked out.
+func highestText(u Number) string {
+	if math.IsNaN(float64(u)) {
+		return "could not be worked out (undefined, as 0 over a limit of 0 is)"
+	}
+	return check.UtilisationText(float64(u))
+}
+
 // members counts n members in words: "1 member", "12 members".
 func members(n int) string {
 	if n == 1 {
@@ -147,7 +156,7 @@ func (t *textWriter) Close(s Summary) error {
 	tw.Flush()
 	fmt.Fprintf(bw, "\n%s: %d ok, %d caution, %d failed a check, %d refused\n", members(s.Members), s.OK, s.Caution, s.Failed, s.Refused)
 	if h := s.Highest; h != nil {
-		fmt.Fprintf(bw, "Highest utilisation: %s, %s, in %s\n", check.UtilisationText(h.Utilisation), h.Name, printable(h.Who.String()))
+		fmt.Fprintf(bw, "Highest utilisation: %s, %s, in %s\n", highestText(h.Utilisation), h.Name, printable(h.Who.String()))
 	}
 	if d := s.Deflection; d != nil {
 		fmt.Fprintf(bw, "Largest deflection for its limit: %s, %s, in %s\n", deflectionText(&d.Deflection), d.Name, printable(d.Who.String()))
@@ -252,7 +261,10 @@ func (c *csvWriter) Member(m Member) error {
 	num := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
 	row := []string{m.File, m.Mark, m.Status.String(), "", "", "", "", "", "", "", warningText(m), "", ""}
 	if g := m.Governing; g != nil {
-		row[3], row[4] = g.Name, num(g.Utilisation)
+		row[3], row[4] = g.Name, g.NotFinite
+		if g.NotFinite == "" {
+			row[4] = num(float64(g.Utilisation))
+		}
 	}
 	if d := m.Deflection; d != nil {
 		row[5], row[6], row[7], row[9] = d.Name, num(d.Deflection), num(d.Span), num(d.LimitRatio)

@@ -124,7 +124,7 @@ func TestCSVHasARowPerMember(t *testing.T) {
 			t.Errorf("row %d: warnings %q, want the problem %q", i+1, row[10], m.Problem)
 		}
 		if g := m.Governing; g != nil {
-			if u, err := strconv.ParseFloat(row[4], 64); err != nil || u != g.Utilisation {
+			if u, err := strconv.ParseFloat(row[4], 64); err != nil || u != float64(g.Utilisation) {
 				t.Errorf("row %d: utilisation %q, want %v", i+1, row[4], g.Utilisation)
 			}
 		}
@@ -175,7 +175,7 @@ func TestDeflectionText(t *testing.T) {
 		{360 / 1.0000001, 360, "L/359.99996 (limit L/360)"},
 		{360.4, 360, "L/360 (limit L/360)"}, // passes, at the limit
 	} {
-		d := Deflection{Ratio: Ratio(c.ratio), LimitRatio: c.limit}
+		d := Deflection{Ratio: Number(c.ratio), LimitRatio: c.limit}
 		if got := deflectionText(&d); got != c.want {
 			t.Errorf("ratio %g, limit %g: %q, want %q", c.ratio, c.limit, got, c.want)
 		}
@@ -271,5 +271,60 @@ func TestCSVTextCellsAreNotFormulas(t *testing.T) {
 		if m.Governing != nil && (row[4] != "-0.5" || row[6] != "-0.004") {
 			t.Errorf("numbers %q and %q, want -0.5 and -0.004 as they are", row[4], row[6])
 		}
+	}
+}
+
+// Each output names a utilisation that is not finite as the highest, in
+// words, JSON as null and why: infinite, or undefined, which the text
+// says could not be worked out.
+func TestOutputsNameANonFiniteUtilisation(t *testing.T) {
+	dir := t.TempDir()
+	ok := strained(t, dir, "deflects", allowable300)
+	for _, c := range nonFinite(t, dir) {
+		t.Run(filepath.Base(c.file), func(t *testing.T) {
+			names := []string{ok, c.file}
+			words := map[bool]string{true: "infinite", false: "undefined"}[math.IsInf(c.want, 1)]
+			text, _, _ := write(t, "text", names)
+			headline := map[string]string{
+				"infinite":  "Highest utilisation: infinite, " + c.check + ", in " + c.file,
+				"undefined": "Highest utilisation: could not be worked out (undefined, as 0 over a limit of 0 is), " + c.check + ", in " + c.file,
+			}[words]
+			if !strings.Contains(text, headline) {
+				t.Errorf("the text does not say %q:\n%s", headline, text)
+			}
+			got, _, _ := write(t, "csv", names)
+			r := csv.NewReader(strings.NewReader(got))
+			r.Comment = '#'
+			rows, err := r.ReadAll()
+			if err != nil {
+				t.Fatal(err)
+			}
+			if row := rows[2]; row[3] != c.check || row[4] != words {
+				t.Errorf("CSV governing check %q, utilisation %q, want %q, %q", row[3], row[4], c.check, words)
+			}
+			got, _, _ = write(t, "json", names)
+			type governing struct {
+				Check       string          `json:"check"`
+				Utilisation json.RawMessage `json:"utilisation"`
+				NotFinite   *string         `json:"utilisation_not_finite"`
+			}
+			var doc struct {
+				Members []struct{ Governing governing } `json:"members"`
+				Summary struct {
+					Highest governing `json:"highest_utilisation"`
+				} `json:"summary"`
+			}
+			if err := json.Unmarshal([]byte(got), &doc); err != nil {
+				t.Fatal(err)
+			}
+			for what, g := range map[string]governing{"member": doc.Members[1].Governing, "summary": doc.Summary.Highest} {
+				if g.Check != c.check || string(g.Utilisation) != "null" || g.NotFinite == nil || *g.NotFinite != words {
+					t.Errorf("JSON %s: %s, utilisation %s, want %s, utilisation null, utilisation_not_finite %q", what, g.Check, g.Utilisation, c.check, words)
+				}
+			}
+			if g := doc.Members[0].Governing; string(g.Utilisation) == "null" || g.NotFinite != nil {
+				t.Errorf("JSON of a finite utilisation: %s, utilisation_not_finite %v, want a number and none", g.Utilisation, g.NotFinite)
+			}
+		})
 	}
 }
