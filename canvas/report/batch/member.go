@@ -62,16 +62,17 @@ func checkOf(name string, u float64) Check {
 }
 
 // governs reports whether utilisation u governs one of v: the larger does;
-// an infinite one governs every other, and an undefined one (NaN), whose
-// size is not known, every finite one, so that neither is left out of the
-// worst check. Of two that tie, v stays.
+// an infinite one governs every other. An undefined one (NaN: 0 over a
+// limit of 0, nothing acting where nothing is allowed) governs every
+// utilisation within its limit, so that it is not left out, but not one
+// beyond its limit, whose failure it would hide. Of two that tie, v stays.
 func governs(u, v Number) bool {
 	a, b := float64(u), float64(v)
 	switch {
 	case math.IsNaN(a):
-		return !math.IsNaN(b) && !math.IsInf(b, 1)
+		return !math.IsNaN(b) && !(b > 1)
 	case math.IsNaN(b):
-		return math.IsInf(a, 1)
+		return a > 1
 	}
 	return a > b
 }
