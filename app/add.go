@@ -215,8 +215,8 @@ func capital(s string) string { return strings.ToUpper(s[:1]) + s[1:] }
 // in display units.
 type addForm struct {
 	w       *Window
-	kind    *widget.Select // what to add
-	choice  *widget.Select // the support kind or the load direction; hidden when the kind has none
+	kind    *escSelect // what to add
+	choice  *escSelect // the support kind or the load direction; hidden when the kind has none
 	form    *fyne.Container
 	hint    *widget.Label
 	message *widget.Label
@@ -240,8 +240,9 @@ func newAddForm(w *Window) *addForm {
 	for i, k := range addKinds {
 		names[i] = k.name
 	}
-	f.choice = widget.NewSelect(nil, func(string) { f.showFields() })
-	f.kind = widget.NewSelect(names, func(name string) { f.choose(name) })
+	f.choice = newEscSelect(nil, func(string) { f.showFields() })
+	f.kind = newEscSelect(names, func(name string) { f.choose(name) })
+	f.choice.OnEscape, f.kind.OnEscape = w.escape, w.escape
 	f.content = container.NewVBox(f.form, f.hint, f.message)
 	f.kind.SetSelected(names[0])
 	return f

@@ -43,13 +43,14 @@ var sectionShapes = []sectionShape{
 
 // segmentPicker chooses the segment a calculator fills: the selected one,
 // else the first.
-func (w *Window) segmentPicker() (*widget.Select, func() int) {
+func (w *Window) segmentPicker() (*escSelect, func() int) {
 	n := len(w.project.Model.Segments)
 	names := make([]string, n)
 	for i, s := range w.project.Model.Segments {
 		names[i] = fmt.Sprintf("segment %d (x = %s to %s)", i+1, w.units.Format(units.Position, s.Start), w.units.Format(units.Position, s.End))
 	}
-	pick := widget.NewSelect(names, nil)
+	pick := newEscSelect(names, nil)
+	pick.OnEscape = w.escape
 	start := 0
 	if w.selected.Kind == canvas.Segment && w.selected.Index < n {
 		start = w.selected.Index
@@ -110,7 +111,7 @@ func (w *Window) showSectionCalculator() {
 	for i, s := range sectionShapes {
 		shapes[i] = s.name
 	}
-	choose := widget.NewSelect(shapes, func(name string) {
+	choose := newEscSelect(shapes, func(name string) {
 		for _, s := range sectionShapes {
 			if s.name == name {
 				shape = s
@@ -129,6 +130,7 @@ func (w *Window) showSectionCalculator() {
 		form.Refresh()
 		compute()
 	})
+	choose.OnEscape = w.escape
 	choose.SetSelectedIndex(0)
 	fill := w.newDialogButton("Fill A, I and c of the segment", func() {
 		if propsErr != nil {
@@ -171,7 +173,7 @@ func (w *Window) showMaterials() {
 	detail := widget.NewLabel("")
 	detail.Wrapping = fyne.TextWrapWord
 	var chosen material.Entry
-	pick := widget.NewSelect(names, func(name string) {
+	pick := newEscSelect(names, func(name string) {
 		for _, e := range typical {
 			if e.Material.Name == name {
 				chosen = e
@@ -182,6 +184,7 @@ func (w *Window) showMaterials() {
 			u.Format(units.Modulus, m.Elastic), u.Format(units.Density, m.Density), u.Format(units.ThermalExpansion, m.ThermalExpansion),
 			u.Format(units.Stress, m.Allowable), chosen.Strength, chosen.Source))
 	})
+	pick.OnEscape = w.escape
 	pick.SetSelectedIndex(0)
 	caution := widget.NewLabelWithStyle(material.Caution, fyne.TextAlignLeading, fyne.TextStyle{Bold: true})
 	caution.Importance = widget.WarningImportance
@@ -233,7 +236,7 @@ func (w *Window) showCheckLimits() {
 // factor on allowable stress.
 type checkLimitsForm struct {
 	ratio, factor *escEntry
-	typical       *widget.Select
+	typical       *escSelect
 	items         []*widget.FormItem
 }
 
@@ -246,7 +249,7 @@ func newCheckLimitsForm(v storage.View) *checkLimitsForm {
 	for i, l := range limits {
 		names[i] = fmt.Sprintf("span/%g: %s", l.Ratio, l.Use)
 	}
-	f.typical = widget.NewSelect(names, func(name string) {
+	f.typical = newEscSelect(names, func(name string) {
 		if i := slices.Index(names, name); i >= 0 {
 			f.ratio.SetText(units.FormatNumber(limits[i].Ratio))
 		}

@@ -537,7 +537,7 @@ type combinationTable struct {
 
 type combinationRow struct {
 	name    *escEntry
-	kind    *widget.Select
+	kind    *escSelect
 	label   string
 	factors []*escEntry // per case
 	trains  []*escEntry // per named train (combinationTable.trains)
@@ -579,7 +579,8 @@ func (t *combinationTable) newEntry() *escEntry {
 
 // addRow adds a row showing cb.
 func (t *combinationTable) addRow(cb fem.Combination) {
-	r := combinationRow{name: t.newEntry(), kind: widget.NewSelect(kindNames, nil), label: cb.Label}
+	r := combinationRow{name: t.newEntry(), kind: newEscSelect(kindNames, nil), label: cb.Label}
+	r.kind.OnEscape = t.escape
 	r.name.SetText(cb.Name)
 	r.kind.SetSelected(cb.Kind.String())
 	t.grid.Add(r.name)

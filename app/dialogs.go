@@ -139,7 +139,7 @@ func (w *Window) showError(err error) {
 // first field; done gets whether confirm was pressed. The confirm button
 // is disabled while a field fails its validation. Enter in any field
 // confirms it, as the confirm button does, as Enter does in the Add form
-// and the properties, and Escape cancels it.
+// and the properties, and Escape, in a field or on a choice, cancels it.
 func (w *Window) showForm(title, confirm string, items []*widget.FormItem, done func(bool)) *dialog.CustomDialog {
 	form := widget.NewForm(items...)
 	d, buttons := w.newDialog(title, form,
@@ -157,12 +157,15 @@ func (w *Window) showForm(title, confirm string, items []*widget.FormItem, done 
 	form.SetOnValidationChanged(validated)
 	var first *escEntry
 	for _, it := range items {
-		if e, ok := it.Widget.(*escEntry); ok {
+		switch e := it.Widget.(type) {
+		case *escEntry:
 			e.OnSubmitted = func(string) { submit.Tapped(nil) }
 			e.OnEscape = w.escape
 			if first == nil {
 				first = e
 			}
+		case *escSelect:
+			e.OnEscape = w.escape
 		}
 	}
 	w.showDialog(d)

@@ -73,3 +73,58 @@ func (e *escEntry) TypedKey(k *fyne.KeyEvent) {
 	}
 	e.Entry.TypedKey(k)
 }
+
+// escSelect is a select that hands Escape to OnEscape (which the window
+// sets to its escape), as escEntry does in a field: fyne's select ignores
+// Escape, so with the focus on a select of a dialog Escape did nothing.
+// Its other keys are fyne's: Space, Up and Down open its list, Left and
+// Right step its choice. With the list open the list has the focus and
+// takes Escape itself, closing the list alone (fyne's
+// PopUpMenu.TypedKey), so that a second Escape closes the dialog.
+type escSelect struct {
+	widget.Select
+	OnEscape func()
+}
+
+// newEscSelect is an escSelect of options calling changed on a change,
+// as widget.NewSelect makes a select (fyne gives it its placeholder as it
+// draws it).
+func newEscSelect(options []string, changed func(string)) *escSelect {
+	s := &escSelect{Select: widget.Select{Options: options, OnChanged: changed}}
+	s.ExtendBaseWidget(s)
+	return s
+}
+
+// TypedKey is part of fyne.Focusable.
+func (s *escSelect) TypedKey(k *fyne.KeyEvent) {
+	if k.Name == fyne.KeyEscape && s.OnEscape != nil {
+		s.OnEscape()
+		return
+	}
+	s.Select.TypedKey(k)
+}
+
+// escTable is a table that hands Escape to OnEscape (which the window
+// sets to its escape): fyne's table takes the focus and ignores Escape.
+// Its other keys are fyne's: the arrows move its focused cell, Space
+// selects it.
+type escTable struct {
+	widget.Table
+	OnEscape func()
+}
+
+// newEscTable is an escTable as widget.NewTable makes a table.
+func newEscTable(length func() (rows, cols int), create func() fyne.CanvasObject, update func(widget.TableCellID, fyne.CanvasObject)) *escTable {
+	t := &escTable{Table: widget.Table{Length: length, CreateCell: create, UpdateCell: update}}
+	t.ExtendBaseWidget(t)
+	return t
+}
+
+// TypedKey is part of fyne.Focusable.
+func (t *escTable) TypedKey(k *fyne.KeyEvent) {
+	if k.Name == fyne.KeyEscape && t.OnEscape != nil {
+		t.OnEscape()
+		return
+	}
+	t.Table.TypedKey(k)
+}

@@ -467,3 +467,153 @@ func TestDialogsLookAsFynesOwn(t *testing.T) {
 		}
 	}
 }
+
+// selectIn is o as a select, or nil when it is none.
+func selectIn(o fyne.CanvasObject) *widget.Select {
+	switch s := o.(type) {
+	case *widget.Select:
+		return s
+	case *escSelect:
+		return &s.Select
+	}
+	return nil
+}
+
+// isTable reports whether o is a table.
+func isTable(o fyne.CanvasObject) bool {
+	switch o.(type) {
+	case *widget.Table, *escTable:
+		return true
+	}
+	return false
+}
+
+// choosers are the selects and tables of the dialog on top of c that Tab
+// reaches, in the order it reaches them.
+func choosers(c fyne.Canvas) []fyne.Focusable {
+	var cs []fyne.Focusable
+	for _, f := range tabOrder(c) {
+		if o := f.(fyne.CanvasObject); selectIn(o) != nil || isTable(o) {
+			cs = append(cs, f)
+		}
+	}
+	return cs
+}
+
+// dialogsWithChoosers are the dialogs with a select or a table.
+var dialogsWithChoosers = []string{"check limits", "the Add form", "section calculator", "typical materials", "combinations", "nodal loads table"}
+
+// Escape with the focus on any select or table of a dialog, where Tab
+// puts it, closes the dialog as its Cancel or Close button does: the
+// focused select or table took the key and ignored it, so Escape did
+// nothing there.
+func TestEscapeOnAFocusedSelectOrTable(t *testing.T) {
+	for _, d := range escapeDialogs {
+		for k := 0; ; k++ {
+			w, c := dialogOnTwoSpans(t, d.name, func(w *Window) { d.show(t, w) })
+			cs := choosers(c)
+			if k == 0 && len(cs) == 0 && slices.Contains(dialogsWithChoosers, d.name) {
+				t.Errorf("%s: Tab reaches no select or table", d.name)
+			}
+			if k >= len(cs) {
+				break
+			}
+			name := nameOf(cs[k].(fyne.CanvasObject))
+			tabTo(t, c, cs[k])
+			before := cloneProject(w.project)
+			typeToFocused(t, w, fyne.KeyEscape)
+			if c.Overlays().Top() != nil {
+				t.Errorf("%s: Escape on its %s left the dialog open", d.name, name)
+			}
+			if !reflect.DeepEqual(w.project, before) || d.affirmed != nil && d.affirmed(w) {
+				t.Errorf("%s: Escape on its %s did what the dialog's affirmative button does", d.name, name)
+			}
+			w.cancelStudy()
+		}
+	}
+}
+
+// On a select of a dialog whose list is open, Escape closes the list
+// alone, as fyne's pop-up menu takes it, leaving the focus on the select
+// and its choice as it was; a second Escape closes the dialog. Space
+// still opens the list, as in fyne's select.
+func TestEscapeClosesAnOpenSelectListFirst(t *testing.T) {
+	for _, d := range escapeDialogs {
+		w, c := dialogOnTwoSpans(t, d.name, func(w *Window) { d.show(t, w) })
+		for _, f := range choosers(c) {
+			s := selectIn(f.(fyne.CanvasObject))
+			if s == nil {
+				continue
+			}
+			dialogs := len(c.Overlays().List())
+			tabTo(t, c, f)
+			chosen := s.Selected
+			typeToFocused(t, w, fyne.KeySpace)
+			if len(c.Overlays().List()) != dialogs+1 {
+				t.Fatalf("%s: Space on its %s opened no list", d.name, nameOf(s))
+			}
+			typeToFocused(t, w, fyne.KeyEscape)
+			if n := len(c.Overlays().List()); n != dialogs {
+				t.Fatalf("%s: Escape in the open list of its %s left %d overlays, want the %d dialogs", d.name, nameOf(s), n, dialogs)
+			}
+			if c.Focused() != f || s.Selected != chosen {
+				t.Errorf("%s: Escape in the open list of its %s left the focus on %v and the choice %q, want the select and %q",
+					d.name, nameOf(s), c.Focused(), s.Selected, chosen)
+			}
+			before := cloneProject(w.project)
+			typeToFocused(t, w, fyne.KeyEscape)
+			if len(c.Overlays().List()) != dialogs-1 {
+				t.Errorf("%s: a second Escape on its %s left the dialog open", d.name, nameOf(s))
+			}
+			if !reflect.DeepEqual(w.project, before) || d.affirmed != nil && d.affirmed(w) {
+				t.Errorf("%s: a second Escape on its %s did what the dialog's affirmative button does", d.name, nameOf(s))
+			}
+			break // one select a dialog: the dialog is closed now
+		}
+	}
+}
+
+// The Escape-aware select and table keep fyne's other keys: Right and
+// Left step the select's choice, Down opens its list (fyne's
+// Select.TypedKey); Down moves the table's focused cell and Space selects
+// it (fyne's Table.TypedKey).
+func TestEscapeAwareWidgetsKeepTheirKeys(t *testing.T) {
+	w, _ := newTestWindow(t, demoProject(t))
+	c := w.win.Canvas()
+	options := []string{"first", "second", "third"}
+	for _, k := range []struct {
+		keys []fyne.KeyName
+		want string
+	}{
+		{[]fyne.KeyName{fyne.KeyRight}, "second"},
+		{[]fyne.KeyName{fyne.KeyRight, fyne.KeyRight, fyne.KeyRight}, "first"}, // round past the last
+		{[]fyne.KeyName{fyne.KeyLeft}, "third"},
+	} {
+		s := newEscSelect(options, nil)
+		s.SetSelectedIndex(0)
+		for _, key := range k.keys {
+			s.TypedKey(&fyne.KeyEvent{Name: key})
+		}
+		if s.Selected != k.want {
+			t.Errorf("%v on a select at %q chose %q, want %q", k.keys, options[0], s.Selected, k.want)
+		}
+	}
+	s := newEscSelect(options, nil)
+	w.win.SetContent(s)
+	overlays := len(c.Overlays().List())
+	s.TypedKey(&fyne.KeyEvent{Name: fyne.KeyDown})
+	if len(c.Overlays().List()) != overlays+1 {
+		t.Error("Down on a select opened no list")
+	}
+
+	var selected []widget.TableCellID
+	tb := newEscTable(func() (int, int) { return 3, 2 }, func() fyne.CanvasObject { return widget.NewLabel("") },
+		func(widget.TableCellID, fyne.CanvasObject) {})
+	tb.OnSelected = func(id widget.TableCellID) { selected = append(selected, id) }
+	for _, key := range []fyne.KeyName{fyne.KeyDown, fyne.KeyRight, fyne.KeySpace} {
+		tb.TypedKey(&fyne.KeyEvent{Name: key})
+	}
+	if want := []widget.TableCellID{{Row: 1, Col: 1}}; !reflect.DeepEqual(selected, want) {
+		t.Errorf("Down, Right, Space on a table selected %v, want %v", selected, want)
+	}
+}

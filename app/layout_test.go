@@ -62,6 +62,8 @@ func nameOf(o fyne.CanvasObject) string {
 		return "switch " + quoteOr(v.Text, "")
 	case *widget.Select:
 		return "choice " + quoteOr(v.Selected, "")
+	case *escSelect:
+		return "choice " + quoteOr(v.Selected, "")
 	case *widget.Entry:
 		return "field " + quoteOr(v.Text, "")
 	case *escEntry:
@@ -81,7 +83,7 @@ func fyneTypeName(o fyne.CanvasObject) string {
 	switch o.(type) {
 	case *drawing:
 		return "drawing"
-	case *widget.Table:
+	case *widget.Table, *escTable:
 		return "table"
 	case *widget.List:
 		return "list"

@@ -202,10 +202,11 @@ func (w *Window) showNodalTable() {
 		return
 	}
 	rows := nodalTableRows(nl, w.units)
-	t := widget.NewTable(func() (int, int) { return len(rows), len(nodalColumns) },
+	t := newEscTable(func() (int, int) { return len(rows), len(nodalColumns) },
 		func() fyne.CanvasObject { return widget.NewLabel("") },
 		func(id widget.TableCellID, o fyne.CanvasObject) { o.(*widget.Label).SetText(rows[id.Row][id.Col]) })
 	t.ShowHeaderRow = true
+	t.OnEscape = w.escape
 	t.UpdateHeader = func(id widget.TableCellID, o fyne.CanvasObject) {
 		if id.Col >= 0 {
 			o.(*widget.Label).SetText(nodalColumns[id.Col].title)

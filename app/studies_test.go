@@ -87,6 +87,8 @@ func dialogWidgets(t *testing.T, w *Window) (selects []*widget.Select, entries [
 		switch v := o.(type) {
 		case *widget.Select:
 			selects = append(selects, v)
+		case *escSelect:
+			selects = append(selects, &v.Select)
 		case *widget.Entry:
 			entries = append(entries, v)
 		case *escEntry:
