@@ -704,36 +704,23 @@ func (cs *CombinationSolutions) Envelope() *Envelope {
 	return &Envelope{Exact: w.exact, Quantities: qs, Reactions: cs.reactionEnvelope(), Foundations: cs.foundationEnvelope()}
 }
 
-// readSides sets the Side of each extreme of qs that lies at a key point
-// of the member where the field of its combination and arrangement jumps
-// by more than round-off of the field's size (negligible): the side whose
-// limit, in the solutions the envelope is of (the exact ones when exact is
-// true), is nearer the extreme's value. Whether the field jumps is read
-// from the exact solutions where there are any: a finite element field
-// also jumps between elements, by the mesh's error, where no side is
-// given.
+// readSides sets the Side of each extreme of qs where the field of its
+// combination and arrangement jumps (sideOfJump): the side whose limit, in
+// the solutions the envelope is of (the exact ones when exact is true), is
+// nearer the extreme's value. Whether the field jumps is read from the
+// exact solutions where there are any.
 func (cs *CombinationSolutions) readSides(qs []QuantityEnvelope, exact bool) {
 	keys := cs.Loads.Fixed[0].Keys
-	tol := mergeTolerance * cs.Fixed[0].Model.Length()
+	L := cs.Fixed[0].Model.Length()
+	judge := cs.FixedExact != nil
 	for i := range qs {
 		q := &qs[i]
 		size := max(math.Abs(q.Max.Value), math.Abs(q.Min.Value))
 		for _, g := range [2]*Governing{&q.Max, &q.Min} {
-			k, _ := slices.BinarySearch(keys, g.X)
-			if !(k < len(keys) && keys[k]-g.X <= tol || k > 0 && g.X-keys[k-1] <= tol) {
-				continue
+			read := func(exact bool) func(Side) float64 {
+				return func(side Side) float64 { return cs.arrangedValue(g, q.Quantity, side, exact, g == &q.Max) }
 			}
-			upper := g == &q.Max
-			read := cs.FixedExact != nil
-			if left, right := cs.arrangedValue(g, q.Quantity, Left, read, upper), cs.arrangedValue(g, q.Quantity, Right, read, upper); math.Abs(left-right) <= negligible*size {
-				continue
-			}
-			switch left, right := cs.arrangedValue(g, q.Quantity, Left, exact, upper), cs.arrangedValue(g, q.Quantity, Right, exact, upper); {
-			case math.Abs(left-g.Value) < math.Abs(right-g.Value):
-				g.Side = Left
-			default:
-				g.Side = Right
-			}
+			g.Side = sideOfJump(keys, L, g.X, g.Value, size, read(judge), read(exact))
 		}
 	}
 }
@@ -761,13 +748,7 @@ func (cs *CombinationSolutions) arrangedValue(g *Governing, q Quantity, side Sid
 			}
 		}
 	}
-	switch {
-	case q != QCombinedStress:
-		return v[q]
-	case upper:
-		return max(v[bottomFibre], v[topFibre])
-	}
-	return min(v[bottomFibre], v[topFibre])
+	return valueOf(&v, q, upper)
 }
 
 // fixedFloors are forceFloor of each of cs.Fixed, with its exact solution

@@ -26,6 +26,13 @@ type Extreme struct {
 	Max, XMax, Min, XMin float64
 	// FEMax and FEMin are the finite element extremes, at FEXMax and FEXMin (m).
 	FEMax, FEXMax, FEMin, FEXMin float64
+	// SideMax, SideMin, FESideMax and FESideMin are the sides of XMax,
+	// XMin, FEXMax and FEXMin that the extremes are read on where the field
+	// jumps there (the shear force at an inner support or under a point
+	// force, the moment under a couple): Left for the limit just left of
+	// the point. They are 0 where the field does not jump, and at the
+	// member's ends, which have one side only (sideOfJump).
+	SideMax, SideMin, FESideMax, FESideMin Side
 	// Accuracy is how far the finite element extremes are from the exact
 	// ones: the larger of |FEMax − Max| and |FEMin − Min| over the field's
 	// largest magnitude (fieldScale: its own, or the size of its kind where
@@ -813,6 +820,7 @@ func (z *Summarizer) Summary() Summary {
 	if ex != nil {
 		withExact(sum.Extremes, ex.ownExtremes(), &s.Model, forceFloor(s, ex))
 	}
+	readExtremeSides(sum.Extremes, s, ex)
 	sum.Supports = supportActions(s, ex)
 	if s.AxialOnly {
 		sum.axialOnly()

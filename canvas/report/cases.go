@@ -274,12 +274,16 @@ func sideName(side fem.Side) string {
 
 // Place is where g is, in units u: "4.000 m", or "just left of 4.000 m"
 // where the field jumps there (g.Side).
-func (g GoverningJSON) Place(u units.System) string {
-	x := u.Format(units.Position, g.X)
-	if g.Side == "" {
-		return x
+func (g GoverningJSON) Place(u units.System) string { return placeWords(g.X, g.Side, u) }
+
+// placeWords is x in units u, "4.000 m", or where side names one ("left",
+// "right", sideName) "just left of 4.000 m".
+func placeWords(x float64, side string, u units.System) string {
+	p := u.Format(units.Position, x)
+	if side == "" {
+		return p
 	}
-	return "just " + g.Side + " of " + x
+	return "just " + side + " of " + p
 }
 
 // Arrangement is g's loaded spans in words, and its train's position in

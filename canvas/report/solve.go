@@ -136,11 +136,17 @@ type extremeJSON struct {
 // placeJSON is an extreme: headline value and place, the exact value, the
 // finite element value and place, and the difference of the values.
 type placeJSON struct {
-	Value      float64  `json:"value"`
-	X          float64  `json:"x"`
+	Value float64 `json:"value"`
+	X     float64 `json:"x"`
+	// Side and SideFE are "left" or "right" where the field jumps at X and
+	// XFE (the shear force at an inner support): the value is its limit
+	// just left or just right of the point, as support_actions give both.
+	// Left out where the field does not jump.
+	Side       string   `json:"side,omitempty"`
 	Exact      *float64 `json:"exact"`
 	FE         float64  `json:"fe"`
 	XFE        float64  `json:"x_fe"`
+	SideFE     string   `json:"side_fe,omitempty"`
 	Difference *float64 `json:"difference"`
 	Unit       string   `json:"unit"`
 	XUnit      string   `json:"x_unit"`
@@ -297,12 +303,14 @@ func resultsOf(s fem.Summary) *Results {
 		r.Reactions = append(r.Reactions, j)
 	}
 	for _, e := range s.Extremes {
-		place := func(v, x, fe, xfe float64) placeJSON {
+		place := func(v, x, fe, xfe float64, side, feSide fem.Side) placeJSON {
 			c := compared(s.Exact, v, fe, e.Unit)
-			return placeJSON{Value: v, X: x, Exact: c.Exact, FE: fe, XFE: xfe, Difference: c.Difference, Unit: e.Unit, XUnit: "m"}
+			return placeJSON{Value: v, X: x, Side: sideName(side), Exact: c.Exact, FE: fe, XFE: xfe, SideFE: sideName(feSide),
+				Difference: c.Difference, Unit: e.Unit, XUnit: "m"}
 		}
 		j := extremeJSON{Quantity: e.Quantity.Key(), Name: e.Quantity.Info().Name,
-			Max: place(e.Max, e.XMax, e.FEMax, e.FEXMax), Min: place(e.Min, e.XMin, e.FEMin, e.FEXMin)}
+			Max: place(e.Max, e.XMax, e.FEMax, e.FEXMax, e.SideMax, e.FESideMax),
+			Min: place(e.Min, e.XMin, e.FEMin, e.FEXMin, e.SideMin, e.FESideMin)}
 		if s.Exact {
 			a := e.Accuracy
 			j.Accuracy = &a
@@ -634,21 +642,23 @@ func WriteResultsText(w io.Writer, src Source) {
 		for i, x := range [2]struct {
 			which           string
 			v, at, fe, feAt float64
-		}{{"largest", e.Max, e.XMax, e.FEMax, e.FEXMax}, {"smallest", e.Min, e.XMin, e.FEMin, e.FEXMin}} {
+			side, feSide    fem.Side
+		}{{"largest", e.Max, e.XMax, e.FEMax, e.FEXMax, e.SideMax, e.FESideMax}, {"smallest", e.Min, e.XMin, e.FEMin, e.FEXMin, e.SideMin, e.FESideMin}} {
 			name := q.Name
 			if i > 0 {
 				name = ""
 			}
+			at, feAt := placeWords(x.at, sideName(x.side), u), placeWords(x.feAt, sideName(x.feSide), u)
 			if !feBeside {
-				fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\n", name, x.which, u.Format(q.Unit, x.fe), pos(x.feAt))
+				fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\n", name, x.which, u.Format(q.Unit, x.fe), feAt)
 				continue
 			}
 			accuracy := ""
 			if i == 0 {
 				accuracy = percent(e.Accuracy)
 			}
-			fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", name, x.which, u.Format(q.Unit, x.v), pos(x.at),
-				u.Format(q.Unit, x.fe), pos(x.feAt), u.Format(q.Unit, x.fe-x.v), accuracy)
+			fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", name, x.which, u.Format(q.Unit, x.v), at,
+				u.Format(q.Unit, x.fe), feAt, u.Format(q.Unit, x.fe-x.v), accuracy)
 		}
 	}
 	tw.Flush()
