@@ -244,19 +244,27 @@ func TestEscapeOnAFocusedButton(t *testing.T) {
 			if k >= len(buttons) {
 				break
 			}
-			name := nameOf(buttons[k].(fyne.CanvasObject))
-			tabTo(t, c, buttons[k])
-			before := cloneProject(w.project)
-			typeToFocused(t, w, fyne.KeyEscape)
-			if c.Overlays().Top() != nil {
-				t.Errorf("%s: Escape on its %s left the dialog open", d.name, name)
-			}
-			if !reflect.DeepEqual(w.project, before) || d.affirmed != nil && d.affirmed(w) {
-				t.Errorf("%s: Escape on its %s did what the dialog's affirmative button does", d.name, name)
-			}
-			w.cancelStudy()
+			escapeCloses(t, w, c, d.name, d.affirmed, buttons[k])
 		}
 	}
+}
+
+// escapeCloses tabs to f in the dialog named name, types Escape and checks
+// that the dialog closed without what affirmed says its affirmative
+// action did (nil: the project alone is compared).
+func escapeCloses(t *testing.T, w *Window, c fyne.Canvas, name string, affirmed func(w *Window) bool, f fyne.Focusable) {
+	t.Helper()
+	what := nameOf(f.(fyne.CanvasObject))
+	tabTo(t, c, f)
+	before := cloneProject(w.project)
+	typeToFocused(t, w, fyne.KeyEscape)
+	if c.Overlays().Top() != nil {
+		t.Errorf("%s: Escape on its %s left the dialog open", name, what)
+	}
+	if !reflect.DeepEqual(w.project, before) || affirmed != nil && affirmed(w) {
+		t.Errorf("%s: Escape on its %s did what the dialog's affirmative button does", name, what)
+	}
+	w.cancelStudy()
 }
 
 // Escape on a button of a dialog opened over another closes the top one
@@ -518,17 +526,7 @@ func TestEscapeOnAFocusedSelectOrTable(t *testing.T) {
 			if k >= len(cs) {
 				break
 			}
-			name := nameOf(cs[k].(fyne.CanvasObject))
-			tabTo(t, c, cs[k])
-			before := cloneProject(w.project)
-			typeToFocused(t, w, fyne.KeyEscape)
-			if c.Overlays().Top() != nil {
-				t.Errorf("%s: Escape on its %s left the dialog open", d.name, name)
-			}
-			if !reflect.DeepEqual(w.project, before) || d.affirmed != nil && d.affirmed(w) {
-				t.Errorf("%s: Escape on its %s did what the dialog's affirmative button does", d.name, name)
-			}
-			w.cancelStudy()
+			escapeCloses(t, w, c, d.name, d.affirmed, cs[k])
 		}
 	}
 }
