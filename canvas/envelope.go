@@ -1,7 +1,6 @@
 package canvas
 
 import (
-	"fmt"
 	"image/color"
 	"math"
 
@@ -151,14 +150,7 @@ func (b *builder) envelopeExtremes(d diagram, es *envelopeStrip, toY func(float6
 		}
 		at := Point{b.sx(p.x), toY(p.value)}
 		b.marker(at, 2.5, d.colour, false)
-		where := "at"
-		switch p.side {
-		case fem.Left:
-			where = "just left of"
-		case fem.Right:
-			where = "just right of"
-		}
-		s := fmt.Sprintf("%s %s %s", b.format(q.Info().Unit, p.value), where, b.format(units.Position, p.x))
+		s := b.format(q.Info().Unit, p.value) + " " + p.side.At(b.format(units.Position, p.x))
 		if p.by != "" {
 			s += ", " + p.by
 		}

@@ -13,6 +13,49 @@ const (
 	Right Side = 1
 )
 
+// Name is the side as results name it: "left", "right", or "" for neither
+// (a field read where it does not jump).
+func (s Side) Name() string {
+	switch s {
+	case Left:
+		return "left"
+	case Right:
+		return "right"
+	}
+	return ""
+}
+
+// SideNamed is the side of name, as Name gives it: 0 for any other name.
+func SideNamed(name string) Side {
+	switch name {
+	case "left":
+		return Left
+	case "right":
+		return Right
+	}
+	return 0
+}
+
+// Place is the position p, written with its unit ("4.000 m", or
+// "x = 4.000 m"), read on side s of a jump: "just left of 4.000 m"; p
+// itself where s is neither side. Every output that says where a value
+// is read says it so.
+func (s Side) Place(p string) string {
+	if n := s.Name(); n != "" {
+		return "just " + n + " of " + p
+	}
+	return p
+}
+
+// At is where a value is, as words after it: "at 4.000 m", or on side s of
+// a jump "just left of 4.000 m" (Place).
+func (s Side) At(p string) string {
+	if s.Name() == "" {
+		return "at " + p
+	}
+	return s.Place(p)
+}
+
 // Fields are all result quantities at one position x along the member.
 type Fields struct {
 	X                 float64 // m

@@ -88,3 +88,31 @@ func TestSummarySaysTheSideOfAJump(t *testing.T) {
 		}
 	}
 }
+
+// Each side is written the way every output writes it, and its name reads
+// back to it: the words are the house style of the text output (common
+// practice for a value at a jump: "just left of" the point).
+func TestSideWords(t *testing.T) {
+	cases := []struct {
+		side            Side
+		name, place, at string
+	}{
+		{Left, "left", "just left of 4.000 m", "just left of 4.000 m"},
+		{Right, "right", "just right of 4.000 m", "just right of 4.000 m"},
+		{0, "", "4.000 m", "at 4.000 m"},
+	}
+	for _, c := range cases {
+		if got := c.side.Name(); got != c.name {
+			t.Errorf("side %d: name %q, want %q", c.side, got, c.name)
+		}
+		if got := SideNamed(c.name); got != c.side {
+			t.Errorf("SideNamed(%q) = %d, want %d", c.name, got, c.side)
+		}
+		if got := c.side.Place("4.000 m"); got != c.place {
+			t.Errorf("side %d: place %q, want %q", c.side, got, c.place)
+		}
+		if got := c.side.At("4.000 m"); got != c.at {
+			t.Errorf("side %d: at %q, want %q", c.side, got, c.at)
+		}
+	}
+}

@@ -242,7 +242,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 // file's cases, as the checks' words give them: the spans g loads, []
 // for none.
 func governingJSON(m *fem.Model, combinations []fem.Combination, shares []fem.Share, g fem.Governing) GoverningJSON {
-	out := GoverningJSON{Value: g.Value, X: g.X, Combination: combinations[g.Combination].Name, LoadedSpans: []LoadedSpansJSON{}, Side: sideName(g.Side)}
+	out := GoverningJSON{Value: g.Value, X: g.X, Combination: combinations[g.Combination].Name, LoadedSpans: []LoadedSpansJSON{}, Side: g.Side.Name()}
 	for _, sh := range shares {
 		takes := slices.ContainsFunc(combinations[g.Combination].Factors, func(cf fem.CaseFactor) bool { return cf.Case == sh.Case && cf.Factor != 0 })
 		if !takes {
@@ -260,30 +260,10 @@ func governingJSON(m *fem.Model, combinations []fem.Combination, shares []fem.Sh
 	return out
 }
 
-// sideName names side as the document does: "left", "right", or "" for
-// none.
-func sideName(side fem.Side) string {
-	switch side {
-	case fem.Left:
-		return "left"
-	case fem.Right:
-		return "right"
-	}
-	return ""
-}
-
 // Place is where g is, in units u: "4.000 m", or "just left of 4.000 m"
-// where the field jumps there (g.Side).
-func (g GoverningJSON) Place(u units.System) string { return placeWords(g.X, g.Side, u) }
-
-// placeWords is x in units u, "4.000 m", or where side names one ("left",
-// "right", sideName) "just left of 4.000 m".
-func placeWords(x float64, side string, u units.System) string {
-	p := u.Format(units.Position, x)
-	if side == "" {
-		return p
-	}
-	return "just " + side + " of " + p
+// where the field jumps there (g.Side, fem.Side.Place).
+func (g GoverningJSON) Place(u units.System) string {
+	return fem.SideNamed(g.Side).Place(u.Format(units.Position, g.X))
 }
 
 // Arrangement is g's loaded spans in words, and its train's position in
@@ -590,12 +570,9 @@ func spanWords(spans [][2]float64) string {
 }
 
 // atPlace is where g is as words after a value: "at 4.000 m", "just left
-// of 4.000 m".
+// of 4.000 m" (fem.Side.At).
 func atPlace(g GoverningJSON, u units.System) string {
-	if g.Side == "" {
-		return "at " + g.Place(u)
-	}
-	return g.Place(u)
+	return fem.SideNamed(g.Side).At(u.Format(units.Position, g.X))
 }
 
 // governingWords names what gives an extreme, positions in units u:

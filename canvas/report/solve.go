@@ -305,7 +305,7 @@ func resultsOf(s fem.Summary) *Results {
 	for _, e := range s.Extremes {
 		place := func(v, x, fe, xfe float64, side, feSide fem.Side) placeJSON {
 			c := compared(s.Exact, v, fe, e.Unit)
-			return placeJSON{Value: v, X: x, Side: sideName(side), Exact: c.Exact, FE: fe, XFE: xfe, SideFE: sideName(feSide),
+			return placeJSON{Value: v, X: x, Side: side.Name(), Exact: c.Exact, FE: fe, XFE: xfe, SideFE: feSide.Name(),
 				Difference: c.Difference, Unit: e.Unit, XUnit: "m"}
 		}
 		j := extremeJSON{Quantity: e.Quantity.Key(), Name: e.Quantity.Info().Name,
@@ -648,7 +648,7 @@ func WriteResultsText(w io.Writer, src Source) {
 			if i > 0 {
 				name = ""
 			}
-			at, feAt := placeWords(x.at, sideName(x.side), u), placeWords(x.feAt, sideName(x.feSide), u)
+			at, feAt := x.side.Place(u.Format(units.Position, x.at)), x.feSide.Place(u.Format(units.Position, x.feAt))
 			if !feBeside {
 				fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\n", name, x.which, u.Format(q.Unit, x.fe), feAt)
 				continue
