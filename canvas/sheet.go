@@ -331,6 +331,36 @@ func (sh *sheet) modelTable(m *fem.Model) {
 	}
 }
 
+// tableColumns places the columns of a table of rows under the bold head
+// in type of size across width from the sheet's edge: each column as wide
+// as its widest text, the room left over shared out between them.
+func tableColumns(head []string, rows [][]string, size, width float32) []float32 {
+	widths := make([]float32, len(head))
+	for i, h := range head {
+		widths[i] = textWidth(h, size, true)
+	}
+	for _, r := range rows {
+		for i, c := range r {
+			widths[i] = max(widths[i], textWidth(c, size, false))
+		}
+	}
+	used := float32(0)
+	for _, w := range widths {
+		used += w
+	}
+	gap := float32(0)
+	if len(widths) > 1 {
+		gap = max(0, (width-used)/float32(len(widths)-1))
+	}
+	xs := make([]float32, len(widths))
+	x := float32(sheetEdge)
+	for i, w := range widths {
+		xs[i] = x
+		x += w + gap
+	}
+	return xs
+}
+
 // resultsTable lists the reactions, extremes and actions at the supports
 // inside the member: the exact solution's beside the finite element ones
 // when there is one, else the finite element ones labelled FE; then
@@ -394,22 +424,27 @@ func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 		sh.row(cols, xs, sheetSmall, inkColour, false)
 	}
 	sh.y += 3
-	xs = []float32{sheetEdge, sheetEdge + 95, sheetEdge + 160, sheetEdge + 210, sheetEdge + 275, sheetEdge + 340, sheetEdge + 390, sheetEdge + 455}
+	// Each extreme's place says the side of a jump as the text output
+	// does (fem.Side.Place), so the columns are as wide as what they hold.
+	place := func(x float64, side fem.Side) string { return side.Place(f(units.Position, x)) }
+	titles := []string{"quantity", "largest FE", "at", "smallest FE", "at"}
 	if sum.Exact {
-		sh.row([]string{"quantity", "largest", "at", "FE", "smallest", "at", "FE", "FE accuracy"}, xs, sheetSmall, faintColour, true)
-	} else {
-		sh.row([]string{"quantity", "largest FE", "at", "", "smallest FE", "at"}, xs, sheetSmall, faintColour, true)
+		titles = []string{"quantity", "largest", "at", "FE", "smallest", "at", "FE", "FE accuracy"}
 	}
+	var extremes [][]string
 	for _, e := range sum.Extremes {
 		q := e.Quantity.Info().Unit
 		if !sum.Exact {
-			sh.row([]string{quantityWords(e.Quantity), f(q, e.FEMax), f(units.Position, e.FEXMax), "", f(q, e.FEMin), f(units.Position, e.FEXMin)},
-				xs, sheetSmall, inkColour, false)
+			extremes = append(extremes, []string{quantityWords(e.Quantity), f(q, e.FEMax), place(e.FEXMax, e.FESideMax), f(q, e.FEMin), place(e.FEXMin, e.FESideMin)})
 			continue
 		}
-		sh.row([]string{quantityWords(e.Quantity), f(q, e.Max), f(units.Position, e.XMax), f(q, e.FEMax),
-			f(q, e.Min), f(units.Position, e.XMin), f(q, e.FEMin), units.FormatG("%.3g %%", 100*e.Accuracy)},
-			xs, sheetSmall, inkColour, false)
+		extremes = append(extremes, []string{quantityWords(e.Quantity), f(q, e.Max), place(e.XMax, e.SideMax), f(q, e.FEMax),
+			f(q, e.Min), place(e.XMin, e.SideMin), f(q, e.FEMin), units.FormatG("%.3g %%", 100*e.Accuracy)})
+	}
+	xs = tableColumns(titles, extremes, sheetSmall, a4Width-2*sheetEdge)
+	sh.row(titles, xs, sheetSmall, faintColour, true)
+	for _, r := range extremes {
+		sh.row(r, xs, sheetSmall, inkColour, false)
 	}
 	if len(sum.Supports) > 0 {
 		sh.y += 3

@@ -2,6 +2,7 @@ package canvas
 
 import (
 	"bytes"
+	"cmp"
 	"fmt"
 	"slices"
 	"strings"
@@ -222,5 +223,66 @@ func TestSheetErrorMeasuresToThreeFigures(t *testing.T) {
 	want := fmt.Sprintf("FE against exact: %s %.3g %% of the largest stress", fem.StressErrorName, 100*2/(3*8.0*8))
 	if all := strings.Join(lines, "\n"); !strings.Contains(all, want) {
 		t.Errorf("the sheet should say %q:\n%s", want, all)
+	}
+}
+
+// The sheet's extremes say the side of a jump as the text output does
+// ("just left of 4.000 m", fem.Side.Place), and its columns do not run
+// into each other with the longer places, in SI or US units. Two equal
+// spans L = 4 m under w = 10 kN/m: the shear force is 5wL/8 = 25 kN just
+// right of the middle support and −25 kN just left of it, the moment there
+// −wL²/8, continuous (AISC Manual, Beam Diagrams and Formulas, continuous
+// beam, two equal spans, uniform load, from memory). Without the exact
+// solution the finite element extremes say their own sides: on 16
+// elements the finite element shear force is constant in each element,
+// largest just right of the support, smallest first reached at 3.5 m, a
+// node where it does not jump (fem's TestSummarySaysTheSideOfAJump).
+func TestSheetSaysTheSideOfAJump(t *testing.T) {
+	m := &fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 8,
+			Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: 2e11}}},
+		Supports:        []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}, {X: 8, Kind: fem.Roller}},
+		DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 8, Intensity: -10e3}}}},
+		Mesh:            fem.MeshSettings{Elements: 16},
+	}
+	for _, exact := range []bool{true, false} {
+		for _, u := range []units.System{units.SI, units.USCustomary} {
+			in := solved(t, m)
+			in.Units = u
+			if !exact {
+				in.Exact = nil
+			}
+			page := buildSheet(SheetInput{Input: in, Notes: SheetNotes{Version: "test"}})
+			rows := map[float32][]Item{} // the text of each line, by its height on the page
+			for _, it := range page.Items {
+				if it.Kind == Text && it.Text != "" {
+					rows[it.At.Y] = append(rows[it.At.Y], it)
+				}
+			}
+			at := u.Format(units.Position, 4)
+			want := []string{"just right of " + at, "just left of " + at}
+			if !exact {
+				want = want[:1]
+			}
+			for _, row := range rows {
+				slices.SortFunc(row, func(a, b Item) int { return cmp.Compare(a.At.X, b.At.X) })
+				var sides []string
+				for i, it := range row {
+					if i > 0 && row[i-1].At.X+row[i-1].Width > it.At.X {
+						t.Errorf("exact %v, %s: %q runs into %q", exact, u.Name, row[i-1].Text, it.Text)
+					}
+					if strings.HasPrefix(it.Text, "just ") {
+						sides = append(sides, it.Text)
+					}
+				}
+				switch {
+				case strings.HasPrefix(row[0].Text, "shear force") && !slices.Equal(sides, want):
+					t.Errorf("exact %v, %s: the shear force's row gives the sides %q, want %q", exact, u.Name, sides, want)
+				case strings.HasPrefix(row[0].Text, "bending moment") && len(sides) > 0:
+					t.Errorf("exact %v, %s: the moment, which does not jump, has a side: %q", exact, u.Name, sides)
+				}
+			}
+		}
 	}
 }
