@@ -376,7 +376,8 @@ func (a *Analysis) largeDisplacement() (Finding, bool) {
 	}
 	type beyond struct {
 		q            fem.Quantity
-		v, at, ratio float64 // the value, where, and its share of the threshold
+		v, at, ratio float64  // the value, where, and its share of the threshold
+		side         fem.Side // of at, where the field jumps there (a rotation at a hinge)
 		words        string
 	}
 	length := a.Model.Length()
@@ -391,9 +392,12 @@ func (a *Analysis) largeDisplacement() (Finding, bool) {
 			default:
 				continue
 			}
-			for _, p := range [2][2]float64{{e.Max, e.XMax}, {e.Min, e.XMin}} {
-				if r := math.Abs(p[0]) / limit; r > 1 && r > worst.ratio {
-					*worst = beyond{e.Quantity, p[0], p[1], r, s.words}
+			for _, p := range [2]struct {
+				v, at float64
+				side  fem.Side
+			}{{e.Max, e.XMax, e.SideMax}, {e.Min, e.XMin, e.SideMin}} {
+				if r := math.Abs(p.v) / limit; r > 1 && r > worst.ratio {
+					*worst = beyond{e.Quantity, p.v, p.at, r, p.side, s.words}
 				}
 			}
 		}
@@ -404,11 +408,11 @@ func (a *Analysis) largeDisplacement() (Finding, bool) {
 		switch {
 		case b.ratio == 0:
 		case b.q == fem.QRotation:
-			parts = append(parts, fmt.Sprintf("the largest rotation is %s at x = %s%s, more than %g rad (about 6°)",
-				u.Format(units.Rotation, b.v), u.Format(units.Position, b.at), b.words, largeRotation))
+			parts = append(parts, fmt.Sprintf("the largest rotation is %s %s%s, more than %g rad (about 6°)",
+				u.Format(units.Rotation, b.v), b.side.At("x = "+u.Format(units.Position, b.at)), b.words, largeRotation))
 		default:
-			parts = append(parts, fmt.Sprintf("the largest %s is %s at x = %s%s, more than a tenth of the member's length (%s)",
-				b.q.Info().Name, u.Format(units.Position, b.v), u.Format(units.Position, b.at), b.words, u.Format(units.Position, largeDisplacementShare*length)))
+			parts = append(parts, fmt.Sprintf("the largest %s is %s %s%s, more than a tenth of the member's length (%s)",
+				b.q.Info().Name, u.Format(units.Position, b.v), b.side.At("x = "+u.Format(units.Position, b.at)), b.words, u.Format(units.Position, largeDisplacementShare*length)))
 		}
 	}
 	if len(parts) == 0 {
@@ -453,20 +457,22 @@ func (a *Analysis) coarseMesh() (Finding, bool) {
 	}
 	u := a.Units
 	q := worst.Quantity.Info()
-	exact, at, fe, feAt := worst.Max, worst.XMax, worst.FEMax, worst.FEXMax
+	exact, at, fe, feAt, side, feSide := worst.Max, worst.XMax, worst.FEMax, worst.FEXMax, worst.SideMax, worst.FESideMax
 	which := "largest"
 	if math.Abs(worst.FEMin-worst.Min) > math.Abs(worst.FEMax-worst.Max) {
-		exact, at, fe, feAt, which = worst.Min, worst.XMin, worst.FEMin, worst.FEXMin, "smallest"
+		exact, at, fe, feAt, side, feSide, which = worst.Min, worst.XMin, worst.FEMin, worst.FEXMin, worst.SideMin, worst.FESideMin, "smallest"
 	}
+	// Where each is read, on its side of a jump (fem.Side.At).
+	place, fePlace := side.At("x = "+u.Format(units.Position, at)), feSide.At("x = "+u.Format(units.Position, feAt))
 	var others []string
 	for _, e := range sum.Extremes {
 		if e.Quantity != worst.Quantity && e.Accuracy > fem.MeshAccuracy {
 			others = append(others, fmt.Sprintf("%s %s", e.Quantity, units.FormatG("%.3g %%", 100*e.Accuracy)))
 		}
 	}
-	msg := fmt.Sprintf("FE and exact differ by %s of the largest %s at x = %s%s: the %s %s is %s at x = %s exactly, %s at x = %s in the finite element (FE) solution on this mesh. ",
-		units.FormatG("%.3g %%", 100*worst.Accuracy), q.Name, u.Format(units.Position, at), words, which, q.Name,
-		u.Format(q.Unit, exact), u.Format(units.Position, at), u.Format(q.Unit, fe), u.Format(units.Position, feAt))
+	msg := fmt.Sprintf("FE and exact differ by %s of the largest %s %s%s: the %s %s is %s %s exactly, %s %s in the finite element (FE) solution on this mesh. ",
+		units.FormatG("%.3g %%", 100*worst.Accuracy), q.Name, place, words, which, q.Name,
+		u.Format(q.Unit, exact), place, u.Format(q.Unit, fe), fePlace)
 	if len(others) > 0 {
 		msg += "Also beyond 0.5 %: " + strings.Join(others, ", ") + ". "
 	}
@@ -650,6 +656,8 @@ func (a *Analysis) HeadlineText(u units.System) string {
 	}
 	sum := a.summary
 	pos := func(x float64) string { return u.Format(units.Position, x) }
+	// at is where an extreme is, on its side of a jump (fem.Side.At).
+	at := func(x float64, side fem.Side) string { return side.At(pos(x)) }
 	value := func(k units.Kind, v, fe float64) string {
 		if !sum.Exact {
 			return u.Format(k, fe) + " FE"
@@ -682,12 +690,12 @@ func (a *Analysis) HeadlineText(u units.System) string {
 		}
 		k := e.Quantity.Info().Unit
 		if !sum.Exact {
-			fmt.Fprintf(&b, "\n• %s from %s at %s to %s at %s, FE", e.Quantity, u.Format(k, e.FEMin), pos(e.FEXMin), u.Format(k, e.FEMax), pos(e.FEXMax))
+			fmt.Fprintf(&b, "\n• %s from %s %s to %s %s, FE", e.Quantity, u.Format(k, e.FEMin), at(e.FEXMin, e.FESideMin), u.Format(k, e.FEMax), at(e.FEXMax, e.FESideMax))
 			continue
 		}
-		fmt.Fprintf(&b, "\n• %s from %s at %s to %s at %s (FE %s at %s, %s at %s)", e.Quantity,
-			u.Format(k, e.Min), pos(e.XMin), u.Format(k, e.Max), pos(e.XMax),
-			u.Format(k, e.FEMin), pos(e.FEXMin), u.Format(k, e.FEMax), pos(e.FEXMax))
+		fmt.Fprintf(&b, "\n• %s from %s %s to %s %s (FE %s %s, %s %s)", e.Quantity,
+			u.Format(k, e.Min), at(e.XMin, e.SideMin), u.Format(k, e.Max), at(e.XMax, e.SideMax),
+			u.Format(k, e.FEMin), at(e.FEXMin, e.FESideMin), u.Format(k, e.FEMax), at(e.FEXMax, e.FESideMax))
 	}
 	for _, s := range sum.Supports[:min(len(sum.Supports), headlineRows)] {
 		fmt.Fprintf(&b, "\n• at support %d (%s): V %s left, %s right; M %s", s.Support, pos(s.X),
