@@ -707,6 +707,43 @@ func TestSafetyFactorBelowOneAsksToBeLookedAt(t *testing.T) {
 	}
 }
 
+// A stress check of nothing acting against a limit of 0 has no
+// utilisation, 0/0 (IEEE 754 arithmetic, from memory: 1e-30 Pa over a
+// safety factor of 1e300 rounds to 0, below 4.9e-324), so it can say
+// neither that the stress is within its limit nor beyond it: it asks to be
+// looked at (Warn, as a safety factor below 1 does) and says why, never
+// "within limit" beside "Utilisation undefined". The overhang 4 m to 5 m of
+// a beam on supports at 0 and 4 m, loaded on its span alone, carries no
+// moment or force (statics, from memory: nothing acts beyond the support);
+// a stress beside a limit of 0 still fails, its utilisation infinite.
+func TestStressOverALimitOfZero(t *testing.T) {
+	m := beam(5, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}}, 1e-30)
+	overhang := m.Segments[0]
+	m.Segments[0].End, overhang.Start = 4, 4
+	m.Segments = append(m.Segments, overhang)
+	m.DistributedLoad = []fem.DistributedLoad{uniform(-10e3, 0, 4)}
+	s, e := solveBoth(t, &m)
+	results := Run(&m, s, e, Options{SafetyFactor: 1e300})
+	for _, c := range []struct {
+		name   string
+		status Status
+		words  []string
+	}{
+		{"Stress, segment 1", Fail, []string{"Utilisation infinite", "The limit is 0"}},
+		{"Stress, segment 2", Warn, []string{"Utilisation undefined", "The limit is 0", "neither within its limit nor beyond it"}},
+	} {
+		r := find(t, results, c.name)
+		if r.Limit != 0 || r.Status != c.status {
+			t.Errorf("%s: %v against a limit of %g; want %v against 0: %s", c.name, r.Status, r.Limit, c.status, r.Message)
+		}
+		for _, w := range c.words {
+			if !strings.Contains(r.Message, w) {
+				t.Errorf("%s: the message lacks %q: %s", c.name, w, r.Message)
+			}
+		}
+	}
+}
+
 // The stresses are first-order, taken on the straight member; compression
 // amplifies the bending moment of a beam-column by about 1/(1 − P/Pe)
 // (Timoshenko & Gere, Theory of Elastic Stability, 2nd ed., ch. 1,

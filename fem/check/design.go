@@ -35,14 +35,27 @@ func stressChecks(p *Probe, o Options) []Result {
 		r.Limit = allowable / o.SafetyFactor
 		utilisation := r.Value / r.Limit
 		r.Status = Pass
-		if utilisation > 1 {
+		switch {
+		case utilisation > 1:
 			r.Status = Fail
+		case math.IsNaN(utilisation):
+			// 0 over a limit of 0: nothing acts where nothing is allowed.
+			// The quotient has no value, so the check cannot pass: it asks
+			// to be looked at, below a failure (as the batch's governing
+			// check ranks it), never "within limit".
+			r.Status = Warn
 		}
 		figures := LimitFigures(o.Units, units.Stress, r.Value, r.Limit)
 		f := func(v float64) string { return o.Units.FormatFigures(units.Stress, v, figures) }
 		r.Message = fmt.Sprintf("Utilisation %s: the largest combined stress (axial plus bending, worst fibre) is %s at x = %s, from %s; the limit is the allowable %s divided by the safety factor %.3g = %s. %s",
 			UtilisationText(utilisation), f(r.Value), at, p.fromWhat(), f(allowable), o.SafetyFactor, f(r.Limit),
 			p.feBeside(o, units.Stress, r.Value, fe))
+		if r.Limit == 0 {
+			r.Message += "The limit is 0: the allowable stress is too small for the safety factor, their quotient rounds to 0; enter the allowable stress and the safety factor meant. "
+		}
+		if math.IsNaN(utilisation) {
+			r.Message += "Nothing acts here and nothing is allowed, so the utilisation, 0 over 0, cannot be worked out: the check can say the stress is neither within its limit nor beyond it. "
+		}
 		if r.Status == Fail {
 			r.Message += "Above 1 the member is overstressed: a larger section, a stronger material, or less load is needed. "
 		}

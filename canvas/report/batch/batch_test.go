@@ -583,6 +583,31 @@ func TestNonFiniteUtilisationGoverns(t *testing.T) {
 	}
 }
 
+// A member whose one doubt is an undefined utilisation (0 over a limit of
+// 0, nonFinite's unloaded overhang) is a caution whose warnings name the
+// check, as its text, JSON and sheet say it: it was "ok" with no warning
+// beside "could not be worked out". On the default mesh no other finding
+// asks for a look (the default mesh keeps the FE extremes within 0.5 %).
+func TestUndefinedUtilisationIsACaution(t *testing.T) {
+	dir := t.TempDir()
+	for _, c := range nonFinite(t, dir) {
+		if !math.IsNaN(c.want) {
+			continue
+		}
+		p, err := storage.Load(c.file)
+		if err != nil {
+			t.Fatal(err)
+		}
+		p.Model.Mesh.Elements = 0
+		file := strained(t, dir, "undefined_default_mesh", func(q *storage.Project) { *q = *p })
+		lines, _ := runAll(t, []string{file}, Options{})
+		m := lines[0]
+		if m.Status != Caution || len(m.Warnings) != 1 || m.Warnings[0].Check != c.check || m.Warnings[0].Severity != "caution" {
+			t.Errorf("%s: status %v, warnings %+v; want a caution naming %s alone", file, m.Status, m.Warnings, c.check)
+		}
+	}
+}
+
 // companion is a member that stands beside one whose utilisation is want
 // and that want governs: one whose deflection fails (1.87) beside an
 // infinite utilisation, one within every limit (0.833, 250 of 300 MPa,
