@@ -359,9 +359,10 @@ func (b *builder) stripExtremes(sd stripData, toY func(float64) float32) []label
 	type pair struct {
 		fe, ex extreme
 		up     bool // drawn toward the top of the strip
+		upper  bool // the largest values, not the smallest
 	}
 	var pairs []pair
-	for _, p := range []pair{{fe.peakHi, sd.exHi, !d.downPositive}, {fe.peakLo, sd.exLo, d.downPositive}} {
+	for _, p := range []pair{{fe.peakHi, sd.exHi, !d.downPositive, true}, {fe.peakLo, sd.exLo, d.downPositive, false}} {
 		constant := p.fe == fe.peakLo && math.Abs(fe.peakHi.value-fe.peakLo.value) <= 1e-9*size
 		if !exact {
 			p.ex = p.fe
@@ -376,12 +377,17 @@ func (b *builder) stripExtremes(sd stripData, toY func(float64) float32) []label
 		if sd.ex != nil {
 			b.marker(Point{b.sx(p.ex.x), toY(p.ex.value)}, 3, exactColour, true)
 		}
+		// Each on its side of a jump, as the results table (fem.Summary's
+		// extremes) says it.
+		s, e, q := b.in.Solution, b.in.Exact, d.quantity
 		var ex *extreme
+		sides := [2]fem.Side{s.SideOf(e, s, q, p.fe.x, p.fe.value, size, p.upper)}
 		if exact {
 			ex = &p.ex
+			sides[1] = s.SideOf(e, e, q, p.ex.x, p.ex.value, size, p.upper)
 		}
 		at := Point{b.sx(p.fe.x), toY(p.fe.value)}
-		labels = append(labels, b.extremeLabel("", d.quantity.Info().Unit, p.fe, ex, at, p.up, inkColour))
+		labels = append(labels, b.extremeLabel("", q.Info().Unit, p.fe, ex, sides, at, p.up, inkColour))
 	}
 	return labels
 }

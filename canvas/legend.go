@@ -176,32 +176,33 @@ const negligibleShare = 0.02
 // extremeWords words an extreme fe of the finite element solution and, with
 // exact, the same extreme of the exact solution and how far the finite
 // element value is off it, a line each; one line where the two agree to
-// the digits shown. what names the quantity ("w ") or is empty where the
-// strip's title names it.
-func (b *builder) extremeWords(what string, q units.Kind, fe extreme, exact *extreme) []string {
+// the digits shown. Each says its side of a jump, sides[0] of fe's place
+// and sides[1] of exact's, as the results table does (fem.Side.At). what
+// names the quantity ("w ") or is empty where the strip's title names it.
+func (b *builder) extremeWords(what string, q units.Kind, fe extreme, exact *extreme, sides [2]fem.Side) []string {
 	value, at := b.format(q, fe.value), b.format(units.Position, fe.x)
 	if exact == nil {
-		return []string{fmt.Sprintf("FE %s%s at %s", what, value, at)}
+		return []string{fmt.Sprintf("FE %s%s %s", what, value, sides[0].At(at))}
 	}
 	exValue, exAt := b.format(q, exact.value), b.format(units.Position, exact.x)
 	switch {
-	case value == exValue && at == exAt:
-		return []string{fmt.Sprintf("FE and exact %s%s at %s", what, value, at)}
+	case value == exValue && at == exAt && sides[0] == sides[1]:
+		return []string{fmt.Sprintf("FE and exact %s%s %s", what, value, sides[0].At(at))}
 	case value == exValue:
-		return []string{fmt.Sprintf("FE and exact %s%s, at %s and %s", what, value, at, exAt)}
+		return []string{fmt.Sprintf("FE and exact %s%s, %s and %s", what, value, sides[0].At(at), sides[1].Place(exAt))}
 	}
 	off := b.format(q, fe.value-exact.value)
 	if fe.value > exact.value {
 		off = "+" + off
 	}
-	return []string{fmt.Sprintf("FE %s%s at %s", what, value, at), fmt.Sprintf("exact %s%s at %s, FE off by %s", what, exValue, exAt, off)}
+	return []string{fmt.Sprintf("FE %s%s %s", what, value, sides[0].At(at)), fmt.Sprintf("exact %s%s %s, FE off by %s", what, exValue, sides[1].At(exAt), off)}
 }
 
 // extremeLabel is the label of an extreme at the point at of a curve drawn
 // toward the top when up (see extremeWords), in colour c; one line when its
 // lines find no place.
-func (b *builder) extremeLabel(what string, q units.Kind, fe extreme, exact *extreme, at Point, up bool, c color.NRGBA) label {
-	lines := b.extremeWords(what, q, fe, exact)
+func (b *builder) extremeLabel(what string, q units.Kind, fe extreme, exact *extreme, sides [2]fem.Side, at Point, up bool, c color.NRGBA) label {
+	lines := b.extremeWords(what, q, fe, exact, sides)
 	return label{lines: lines, compact: strings.Join(lines, "; "), size: smallSize, colour: c, at: at, spots: besideSpots(at, up)}
 }
 

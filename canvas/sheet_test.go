@@ -10,6 +10,7 @@ import (
 
 	"stave/fem"
 	"stave/fem/units"
+	"stave/storage"
 )
 
 // modelledModel is a member with everything the model table must show
@@ -238,14 +239,7 @@ func TestSheetErrorMeasuresToThreeFigures(t *testing.T) {
 // largest just right of the support, smallest first reached at 3.5 m, a
 // node where it does not jump (fem's TestSummarySaysTheSideOfAJump).
 func TestSheetSaysTheSideOfAJump(t *testing.T) {
-	m := &fem.Model{
-		Segments: []fem.Segment{{Start: 0, End: 8,
-			Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
-			Material: fem.Material{Elastic: 2e11}}},
-		Supports:        []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}, {X: 8, Kind: fem.Roller}},
-		DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 8, Intensity: -10e3}}}},
-		Mesh:            fem.MeshSettings{Elements: 16},
-	}
+	m := twoSpans()
 	for _, exact := range []bool{true, false} {
 		for _, u := range []units.System{units.SI, units.USCustomary} {
 			in := solved(t, m)
@@ -281,6 +275,61 @@ func TestSheetSaysTheSideOfAJump(t *testing.T) {
 					t.Errorf("exact %v, %s: the shear force's row gives the sides %q, want %q", exact, u.Name, sides, want)
 				case strings.HasPrefix(row[0].Text, "bending moment") && len(sides) > 0:
 					t.Errorf("exact %v, %s: the moment, which does not jump, has a side: %q", exact, u.Name, sides)
+				}
+			}
+		}
+	}
+}
+
+// twoSpans is a member over two equal spans of 4 m under 10 kN/m, on 16
+// elements (the shipped two_span_uniform).
+func twoSpans() *fem.Model {
+	return &fem.Model{
+		Segments: []fem.Segment{{Start: 0, End: 8,
+			Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
+			Material: fem.Material{Elastic: 2e11}}},
+		Supports:        []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}, {X: 8, Kind: fem.Roller}},
+		DistributedLoad: []fem.DistributedLoad{{Direction: fem.Transverse, Points: []fem.LoadPoint{{X: 0, Intensity: -10e3}, {X: 8, Intensity: -10e3}}}},
+		Mesh:            fem.MeshSettings{Elements: 16},
+	}
+}
+
+// The diagrams' labels of the extremes say the side of a jump as the
+// results table and the text output do: the shear force of two spans
+// (TestSheetSaysTheSideOfAJump's values) is 25 kN just right of the middle
+// support and −25 kN just left of it, 22.5 kN just right of it and
+// −22.5 kN at 3.5 m on the mesh; without the exact solution the finite
+// element labels say their own sides. The moment, continuous, has none.
+func TestDiagramLabelsSayTheSideOfAJump(t *testing.T) {
+	for _, exact := range []bool{true, false} {
+		for _, u := range units.Systems() {
+			in := solved(t, twoSpans())
+			in.Units = u
+			in.Overlays = storage.Overlays{ShearForce: true, BendingMoment: true}
+			f, at := u.Format, func(x float64) string { return u.Format(units.Position, x) }
+			want := []string{"FE " + f(units.Force, 22.5e3) + " just right of " + at(4), "FE " + f(units.Force, -22.5e3) + " at " + at(3.5),
+				"exact " + f(units.Force, 25e3) + " just right of " + at(4) + ", FE off by " + f(units.Force, -2.5e3),
+				"exact " + f(units.Force, -25e3) + " just left of " + at(4) + ", FE off by +" + f(units.Force, 2.5e3)}
+			if !exact {
+				in.Exact = nil
+				want = want[:2]
+			}
+			v := NewView(1000, 700)
+			v.Fit(in.Model)
+			var texts []string
+			for _, it := range Build(in, v).Items {
+				if it.Kind == Text {
+					texts = append(texts, it.Text)
+				}
+			}
+			for _, w := range want {
+				if !slices.Contains(texts, w) {
+					t.Errorf("exact %v, %s: no label %q among %q", exact, u.Name, w, texts)
+				}
+			}
+			for _, s := range texts {
+				if strings.Contains(s, "kN·m") && strings.Contains(s, "just ") || strings.Contains(s, "kip·ft") && strings.Contains(s, "just ") {
+					t.Errorf("exact %v, %s: the moment, which does not jump, has a side: %q", exact, u.Name, s)
 				}
 			}
 		}

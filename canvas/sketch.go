@@ -882,7 +882,8 @@ func (b *builder) deflected(lay layoutBands) *deflectedShape {
 			b.marker(Point{b.sx(exact.x), toY(exact.value)}, 3, exactColour, true)
 		}
 	}
-	d.peak = b.extremeLabel("w ", units.Deflection, peak, exact, at, peak.value > 0, deformedColour)
+	// The deflection is continuous: it has no side to say.
+	d.peak = b.extremeLabel("w ", units.Deflection, peak, exact, [2]fem.Side{}, at, peak.value > 0, deformedColour)
 	return d
 }
 

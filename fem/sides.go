@@ -43,30 +43,41 @@ func valueOf(v *[envelopeValues]float64, q Quantity, upper bool) float64 {
 }
 
 // readExtremeSides sets the sides of the extremes of list, of the
-// solution s (sideOfJump): the headline ones read from e where it is not
-// nil, else from s, the finite element ones from s; whether a field jumps
-// is read from e where it is not nil.
+// solution s (SideOf): the headline ones read from e where it is not nil,
+// else from s, the finite element ones from s.
 func readExtremeSides(list []Extreme, s *Solution, e *Exact) {
-	var judge, headline Field = s, s
+	var headline Field = s
 	if e != nil {
-		judge, headline = e, e
+		headline = e
 	}
-	L := s.Model.Length()
 	for i := range list {
 		x := &list[i]
 		q := x.Quantity
 		size := max(math.Abs(x.Max), math.Abs(x.Min))
-		side := func(at, value float64, upper bool, f Field) Side {
-			read := func(f Field) func(Side) float64 {
-				return func(side Side) float64 {
-					fs := f.At(at, side)
-					v := sampleValues(&fs)
-					return valueOf(&v, q, upper)
-				}
-			}
-			return sideOfJump(s.loads.Keys, L, at, value, size, read(judge), read(f))
-		}
-		x.SideMax, x.SideMin = side(x.XMax, x.Max, true, headline), side(x.XMin, x.Min, false, headline)
-		x.FESideMax, x.FESideMin = side(x.FEXMax, x.FEMax, true, s), side(x.FEXMin, x.FEMin, false, s)
+		x.SideMax, x.SideMin = s.SideOf(e, headline, q, x.XMax, x.Max, size, true), s.SideOf(e, headline, q, x.XMin, x.Min, size, false)
+		x.FESideMax, x.FESideMin = s.SideOf(e, s, q, x.FEXMax, x.FEMax, size, true), s.SideOf(e, s, q, x.FEXMin, x.FEMin, size, false)
 	}
+}
+
+// SideOf is the side of x that value, an extreme of quantity q of the field
+// f (s or e), is read on where the field jumps at x (sideOfJump), 0 where
+// it does not: upper says value is a largest one, which of the combined
+// stress is the greater fibre's. Whether the field jumps is read from e
+// where it is not nil (the finite element field also jumps between
+// elements, by the mesh's error), else from s; size is the field's
+// largest magnitude. The summary's extremes and the drawing's labels of
+// them are read so.
+func (s *Solution) SideOf(e *Exact, f Field, q Quantity, x, value, size float64, upper bool) Side {
+	var judge Field = s
+	if e != nil {
+		judge = e
+	}
+	read := func(f Field) func(Side) float64 {
+		return func(side Side) float64 {
+			fs := f.At(x, side)
+			v := sampleValues(&fs)
+			return valueOf(&v, q, upper)
+		}
+	}
+	return sideOfJump(s.loads.Keys, s.Model.Length(), x, value, size, read(judge), read(f))
 }
