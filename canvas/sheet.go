@@ -467,8 +467,7 @@ func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 	}
 	sh.para(fmt.Sprintf("Equilibrium residual (%s): %s, %s, %s (relative %s; FE %s)", reactions, f(units.Force, eq.Residual.Axial),
 		f(units.Force, eq.Residual.Transverse), f(units.Moment, eq.Residual.Moment), units.FormatG("%.1e", eq.Relative), units.FormatG("%.1e", sum.FEEquilibrium.Relative)), inkColour)
-	sh.para(fmt.Sprintf("Mesh: %s, %s, %s, condition estimate %s. %s",
-		units.Count(sum.Mesh.Elements, "element"), units.Count(sum.Mesh.Nodes, "node"), sum.Mesh.Kinds, units.FormatG("%.2e", sum.Mesh.Condition), mesh), inkColour)
+	sh.para("Mesh: "+sum.Mesh.Words()+". "+mesh, inkColour)
 	if e := sum.ExactError; e != nil {
 		sh.para(fmt.Sprintf("FE against exact: %s %s of the largest stress, %s %s, %s %s",
 			fem.StressErrorName, units.FormatG("%.3g %%", 100*e.MaxStressRelative), fem.DisplacementErrorName, units.FormatG("%.3g %%", 100*e.RelativeL2),

@@ -335,3 +335,21 @@ func TestDiagramLabelsSayTheSideOfAJump(t *testing.T) {
 		}
 	}
 }
+
+// The sheet's line on the mesh gives its condition estimate as the text
+// output does, to two figures ("condition estimate 18"): it wrote
+// "1.78e+01" beside the text's "18" for the same mesh.
+func TestSheetMeshLineAsTheText(t *testing.T) {
+	in := solved(t, twoSpans())
+	sum := fem.Summarize(in.Solution, in.Exact)
+	want := fmt.Sprintf("Mesh: 16 elements, 17 nodes, %s, condition estimate %s.", sum.Mesh.Kinds, units.FormatG("%.2g", sum.Mesh.Condition))
+	var all []string
+	for _, it := range buildSheet(SheetInput{Input: in, Notes: SheetNotes{Version: "test"}}).Items {
+		if it.Kind == Text {
+			all = append(all, it.Text)
+		}
+	}
+	if text := strings.Join(all, " "); !strings.Contains(text, want) {
+		t.Errorf("the sheet does not say %q:\n%s", want, text)
+	}
+}

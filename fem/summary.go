@@ -1,8 +1,11 @@
 package fem
 
 import (
+	"fmt"
 	"math"
 	"sort"
+
+	"stave/fem/units"
 )
 
 // A Summary leads with the exact solution of the model (the headline
@@ -54,6 +57,13 @@ type MeshSummary struct {
 	// MeshAccuracy), and Note how, in words.
 	Automatic bool
 	Note      string
+}
+
+// Words is the mesh as every output writes it: "16 elements, 17 nodes,
+// linear bar and Hermite beam elements, condition estimate 18".
+func (m MeshSummary) Words() string {
+	return fmt.Sprintf("%s, %s, %s, condition estimate %s", units.Count(m.Elements, "element"), units.Count(m.Nodes, "node"),
+		m.Kinds, units.FormatG("%.2g", m.Condition))
 }
 
 // EquilibriumSummary is Equilibrium with named components for reports.

@@ -697,8 +697,7 @@ func percent(v float64) string { return units.FormatG("%.3g %%", 100*v) }
 // WriteMeshText writes the line on the mesh: its size, who chose it and
 // how, and the accuracy its extremes reach against the exact ones.
 func WriteMeshText(w io.Writer, sum fem.Summary) {
-	fmt.Fprintf(w, "Mesh: %s, %s, %s, condition estimate %s\n",
-		units.Count(sum.Mesh.Elements, "element"), units.Count(sum.Mesh.Nodes, "node"), sum.Mesh.Kinds, units.FormatG("%.2g", sum.Mesh.Condition))
+	fmt.Fprintln(w, "Mesh: "+sum.Mesh.Words())
 	fmt.Fprintln(w, "  "+analysis.MeshChoice(sum))
 }
 
