@@ -63,11 +63,24 @@ func bruteCases() []struct {
 		gerber.Hinges = append(gerber.Hinges, fem.Hinge{X: 2*float64(i) + 0.75})
 	}
 	gerber.Supports[0].Kind = fem.Fixed
+	segmented := manySpans(2, 15)
+	segmented.Segments = nil
+	for i := range 40 {
+		sg := fem.Segment{Start: 0.75 * float64(i), End: 0.75 * float64(i+1), Section: fem.Section{Area: 5e-3, SecondMoment: 8e-5 * (1 + 0.5*math.Sin(float64(i))), FibreDistance: 0.15}, Material: fem.Material{Elastic: 200e9}}
+		segmented.Segments = append(segmented.Segments, sg)
+	}
+	springy := manySpans(30, 1)
+	for i := 0; i <= 30; i += 3 {
+		springy.Supports[i] = fem.Support{X: float64(i), Kind: fem.Spring, Stiffness: [3]float64{fem.Transverse: 1e9, fem.Rotation: 1e5}}
+	}
+	springy.Supports[0] = fem.Support{X: 0, Kind: fem.Pinned}
 	return []struct {
 		name  string
 		m     *fem.Model
 		train Train
 	}{
+		{"two spans of 40 segments", segmented, two},
+		{"rotational springs", springy, long},
 		{"stiff and weak spans", contrast, two},
 		{"12 axles", equal, long},
 		{"floating springs", floating, two},
