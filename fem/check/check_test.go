@@ -987,6 +987,13 @@ func TestDeflectionBesideAWeakOverhang(t *testing.T) {
 // which the weak part shortens by over 2 m: σ = E·0.125 mm/2 m =
 // 12.5 MPa; the left part's P/A = 25 MPa, the right part's nothing
 // (statics: the weak part's force EA·ε is 1e-17 of P).
+//
+// Pulled: a weakness in bending hid a plain axial stress too. A span of
+// 3 m fixed at x = 0 and propped at 3 m under q = 10 kN/m, and an overhang
+// to 6 m of I = 8e-14 m⁴ pulled at its tip by 1 kN: the overhang's stress
+// is N/A = 1 kN/4e-3 m² = 0.25 MPa (statics), which read 0 MPa; the
+// span's is q·l²/8 · c/I + N/A = 140.625 + 0.25 MPa at the fixed end (the
+// beam diagram above).
 func TestStressOfAWeakSegmentMovedByItsNeighbours(t *testing.T) {
 	segment := func(a, b, A, I float64) fem.Segment {
 		return fem.Segment{Start: a, End: b, Section: fem.Section{Area: A, SecondMoment: I, FibreDistance: 0.1},
@@ -1008,6 +1015,12 @@ func TestStressOfAWeakSegmentMovedByItsNeighbours(t *testing.T) {
 			PointLoads: []fem.PointLoad{{X: 1, Axial: 100e3}},
 			Mesh:       fem.MeshSettings{Elements: 12}},
 			[]float64{25e6, 200e9 * (100e3 / (200e9 * 4e-3)) / 2, 0}},
+		{"pulled", fem.Model{Segments: []fem.Segment{segment(0, 3, 4e-3, 8e-6), segment(3, 6, 4e-3, 8e-14)},
+			Supports:        []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 3, Kind: fem.Roller}},
+			DistributedLoad: []fem.DistributedLoad{uniform(-10e3, 0, 3)},
+			PointLoads:      []fem.PointLoad{{X: 6, Axial: 1e3}},
+			Mesh:            fem.MeshSettings{Elements: 12}},
+			[]float64{10e3*9/8*0.1/8e-6 + 1e3/4e-3, 1e3 / 4e-3}},
 	} {
 		s, e := solveBoth(t, &c.m)
 		results := Run(&c.m, s, e, DefaultOptions())
