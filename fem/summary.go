@@ -426,7 +426,8 @@ func (f floorSizes) stressNear(m *Model, xs ...float64) floorSizes {
 // sum), and the imposed deformations fully restrained (Model.ImposedScales),
 // a moment counted as a force by dividing by the length (loadForces); the
 // stress, per segment the force on its area or the moment on its section
-// modulus (and of the whole model the largest of these). The displacement
+// modulus, but no more than the member's deformations make in its section
+// (deformedStresses), and of the whole model the largest of these. The displacement
 // is what the member's deformations make (Solution.deformations, from the
 // exact solution e where it is not nil, else from s): a segment that
 // carries nothing, however weak, makes no displacement, and does not make
@@ -447,13 +448,7 @@ func forceFloor(s *Solution, e *Exact) floorSizes {
 	f := floorSizes{segments: make([][2]float64, len(m.Segments))}
 	f.all[0], f.axial[0] = max(axial, across), axial
 	var stretched, bent float64 // what the force would do to the most flexible segment, m
-	for i, sg := range m.Segments {
-		if sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
-			own := axial / sg.Section.Area
-			f.segments[i] = [2]float64{max(own, across*L*sg.Section.FibreDistance/sg.Section.SecondMoment), own}
-			f.axial[1] = max(f.axial[1], own)
-			f.all[1] = max(f.all[1], f.segments[i][0])
-		}
+	for _, sg := range m.Segments {
 		if el := sg.Material.Elastic; el > 0 && sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
 			ea, ei := el*sg.Section.Area, el*sg.Section.SecondMoment
 			la, lb := groundLengths(m, ea, ei)
@@ -462,11 +457,47 @@ func forceFloor(s *Solution, e *Exact) floorSizes {
 		}
 	}
 	along, aside := s.deformations(e, f.all[0])
+	for i, sg := range m.Segments {
+		if sg.Section.Area > 0 && sg.Section.SecondMoment > 0 {
+			own, bending := axial/sg.Section.Area, across*L*sg.Section.FibreDistance/sg.Section.SecondMoment
+			own, bending = s.deformedStresses(i, along, aside, own, bending)
+			f.segments[i] = [2]float64{max(own, bending), own}
+			f.axial[1] = max(f.axial[1], own)
+			f.all[1] = max(f.all[1], f.segments[i][0])
+		}
+	}
 	if along == 0 && aside == 0 {
 		along, aside = stretched, bent
 	}
 	f.axial[2], f.all[2] = along, max(along, aside)
 	return f
+}
+
+// deformedStresses are the axial and bending stress sizes of segment i of
+// s's member (Pa), own and bending, the loads' force on its area and
+// moment on its section modulus, at most what the member's deformations
+// along and across it (m, Solution.deformations; 0 where it does not
+// deform so) can make in its section, σ = E·(ε + κ·c) with its own
+// thermal strain and curvature: the segment's ends move apart by at most
+// twice along and turn by at most aside/L, and move across by at most
+// aside, which bends a segment of length l by at most 6·θ/l + 12·w/l²
+// (its end moments, slope-deflection, from memory). A weak segment the
+// member's turns bend carries a moment that is round-off against the
+// loads' (M = EI·κ), but a real stress E·κ·c, whatever its I.
+func (s *Solution) deformedStresses(i int, along, aside, own, bending float64) (float64, float64) {
+	m := &s.Model
+	sg, sec := &m.Segments[i], &s.sections[i]
+	E, l, L := sg.Material.Elastic, sg.End-sg.Start, m.Length()
+	if !(E > 0 && l > 0 && L > 0) {
+		return own, bending
+	}
+	if along > 0 {
+		own = min(own, E*(2*along/l+math.Abs(sec.thermalStrain)))
+	}
+	if aside > 0 {
+		bending = min(bending, E*sg.Section.FibreDistance*(6*aside/(L*l)+12*aside/(l*l)+math.Abs(sec.thermalCurvature)))
+	}
+	return own, bending
 }
 
 // loadForces are the sizes of the forces on s's member along it and

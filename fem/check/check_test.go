@@ -998,3 +998,74 @@ func TestDeflectionBesideAWeakOverhang(t *testing.T) {
 		}
 	}
 }
+
+// A weak segment that carries no load of its own is still bent or
+// stretched by its neighbours, and its stress σ = E·(ε + κ·c) does not
+// depend on its I or A, so its check reads it, not 0: it was judged
+// against the loads' force on its area and moment on its section
+// modulus (2e4 N · 6 m · 0.1 m / 8e-20 m⁴), which its own force and
+// moment (EI·κ, EA·ε) are round-off against.
+//
+// Bent: two propped cantilevers of l = 2 m (fixed at x = 0 and 6 m,
+// propped at 2 and 4 m) under q = 10 kN/m (EI = 200 GPa · 8e-6 m⁴),
+// joined by an unloaded segment of I = 8e-20 m⁴, far too weak to restrain
+// them: each turns at its prop by θ = q·l³/(48EI) = 1.0417e-3 rad (AISC
+// Manual, Beam Diagrams and Formulas, beam fixed at one end, supported at
+// other – uniformly distributed load, slope at the supported end, from
+// memory), so the weak segment's ends turn by θ and −θ; unloaded, its
+// moment is linear, here constant: κ = 2θ/2 m and σ = E·κ·c = 200 GPa ·
+// 1.0417e-3 /m · 0.1 m = 20.83 MPa. Each outer segment's largest is
+// q·l²/8 · c/I = 62.5 MPa at its fixed end (the same beam diagram).
+//
+// Stretched: a bar fixed at both ends, P = 100 kN along it at x = 1 m, its
+// middle 2 m of A = 4e-20 m²: the left part takes P into x = 0 and moves
+// x = 1 m to 2 m by P·1 m/EA = 0.125 mm (EA = 200 GPa · 4e-3 m², Gere &
+// Goodno, Mechanics of Materials, axially loaded members, from memory),
+// which the weak part shortens by over 2 m: σ = E·0.125 mm/2 m =
+// 12.5 MPa; the left part's P/A = 25 MPa, the right part's nothing
+// (statics: the weak part's force EA·ε is 1e-17 of P).
+//
+// Pulled: a weakness in bending hid a plain axial stress too. A span of
+// 3 m fixed at x = 0 and propped at 3 m under q = 10 kN/m, and an overhang
+// to 6 m of I = 8e-14 m⁴ pulled at its tip by 1 kN: the overhang's stress
+// is N/A = 1 kN/4e-3 m² = 0.25 MPa (statics), which read 0 MPa; the
+// span's is q·l²/8 · c/I + N/A = 140.625 + 0.25 MPa at the fixed end (the
+// beam diagram above).
+func TestStressOfAWeakSegmentMovedByItsNeighbours(t *testing.T) {
+	segment := func(a, b, A, I float64) fem.Segment {
+		return fem.Segment{Start: a, End: b, Section: fem.Section{Area: A, SecondMoment: I, FibreDistance: 0.1},
+			Material: fem.Material{Name: "steel", Elastic: 200e9}}
+	}
+	theta := 10e3 * 8 / (48 * 200e9 * 8e-6)
+	for _, c := range []struct {
+		name string
+		m    fem.Model
+		want []float64
+	}{
+		{"bent", fem.Model{Segments: []fem.Segment{segment(0, 2, 4e-3, 8e-6), segment(2, 4, 4e-3, 8e-20), segment(4, 6, 4e-3, 8e-6)},
+			Supports:        []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 2, Kind: fem.Roller}, {X: 4, Kind: fem.Roller}, {X: 6, Kind: fem.Fixed}},
+			DistributedLoad: []fem.DistributedLoad{uniform(-10e3, 0, 2), uniform(-10e3, 4, 6)},
+			Mesh:            fem.MeshSettings{Elements: 12}},
+			[]float64{62.5e6, 200e9 * theta * 0.1, 62.5e6}},
+		{"stretched", fem.Model{Segments: []fem.Segment{segment(0, 2, 4e-3, 8e-6), segment(2, 4, 4e-20, 8e-20), segment(4, 6, 4e-3, 8e-6)},
+			Supports:   []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 6, Kind: fem.Fixed}},
+			PointLoads: []fem.PointLoad{{X: 1, Axial: 100e3}},
+			Mesh:       fem.MeshSettings{Elements: 12}},
+			[]float64{25e6, 200e9 * (100e3 / (200e9 * 4e-3)) / 2, 0}},
+		{"pulled", fem.Model{Segments: []fem.Segment{segment(0, 3, 4e-3, 8e-6), segment(3, 6, 4e-3, 8e-14)},
+			Supports:        []fem.Support{{X: 0, Kind: fem.Fixed}, {X: 3, Kind: fem.Roller}},
+			DistributedLoad: []fem.DistributedLoad{uniform(-10e3, 0, 3)},
+			PointLoads:      []fem.PointLoad{{X: 6, Axial: 1e3}},
+			Mesh:            fem.MeshSettings{Elements: 12}},
+			[]float64{10e3*9/8*0.1/8e-6 + 1e3/4e-3, 1e3 / 4e-3}},
+	} {
+		s, e := solveBoth(t, &c.m)
+		results := Run(&c.m, s, e, DefaultOptions())
+		for i, want := range c.want {
+			r := find(t, results, fmt.Sprintf("Stress, segment %d", i+1))
+			if want == 0 && (r.Value != 0 || r.FE != 0) || want != 0 && (!near(r.Value, want, 1e-6) || !near(r.FE, want, 0.05)) {
+				t.Errorf("%s: segment %d stress %g Pa (exact), %g (FE) at x = %g, want %g", c.name, i+1, r.Value, r.FE, r.X, want)
+			}
+		}
+	}
+}
