@@ -479,14 +479,17 @@ func beamHandbookCases() []beamCase {
 	return cases
 }
 
+// allBeamCases are the cases of this file and those of varied_loads_test.go.
+func allBeamCases() []beamCase { return append(beamHandbookCases(), variedLoadCases()...) }
+
 func TestBeamHandbookFiniteElement(t *testing.T) {
-	for _, c := range beamHandbookCases() {
+	for _, c := range allBeamCases() {
 		t.Run(c.name, func(t *testing.T) { checkFiniteElementCase(t, c.refCase, fem.LinearBar) })
 	}
 }
 
 func TestBeamHandbookExact(t *testing.T) {
-	for _, c := range beamHandbookCases() {
+	for _, c := range allBeamCases() {
 		t.Run(c.name, func(t *testing.T) { checkExactCase(t, c.refCase) })
 	}
 }
@@ -495,7 +498,7 @@ func TestBeamHandbookExact(t *testing.T) {
 // headline (exact) value and its position to round-off on any mesh, and on
 // the default mesh the finite element value within the accuracy it promises.
 func TestBeamHandbookSummary(t *testing.T) {
-	for _, c := range beamHandbookCases() {
+	for _, c := range allBeamCases() {
 		for _, elements := range []int{0, 3} {
 			m := c.model
 			m.Mesh = fem.MeshSettings{Elements: elements}

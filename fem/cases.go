@@ -2,6 +2,7 @@ package fem
 
 import (
 	"fmt"
+	"math"
 	"slices"
 )
 
@@ -276,6 +277,7 @@ func CombineSolutions(sols []*Solution, factors []float64) (*Solution, error) {
 			out.Equilibrium.Applied[j] += f * s.Equilibrium.Applied[j]
 			out.Equilibrium.Reactions[j] += f * s.Equilibrium.Reactions[j]
 			out.Equilibrium.Ground[j] += f * s.Equilibrium.Ground[j]
+			out.Equilibrium.Sizes[j] += math.Abs(f) * s.Equilibrium.Sizes[j]
 		}
 	}
 	// The thermal strain is a load: combine it too.

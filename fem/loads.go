@@ -1,5 +1,7 @@
 package fem
 
+import "math"
+
 // Loads is what a model applies to its member, gathered once onto the
 // stretches between key points, where every distributed load and the
 // self-weight is linear. The finite element solve, the exact solution,
@@ -120,6 +122,30 @@ func (l *Loads) Resultant() [3]float64 {
 		r[1] += 0.5 * h * (q[0] + q[1])
 		// ∫x·q dx for q linear on [a, b].
 		r[2] += h / 6 * (q[0]*(2*a+b) + q[1]*(a+2*b))
+	}
+	return r
+}
+
+// Sizes are the sizes of the terms Resultant sums, each taken without its
+// sign and added up: N, N and N·m. Loads that balance among themselves
+// (opposite couples, a force pair with its couple) have a resultant of
+// nothing but sizes that are not, against which the round-off of their
+// balance with the reactions is measured.
+func (l *Loads) Sizes() [3]float64 {
+	var r [3]float64
+	for _, p := range l.Points {
+		r[0] += math.Abs(p.Axial)
+		r[1] += math.Abs(p.Transverse)
+		r[2] += math.Abs(p.Moment) + math.Abs(p.X*p.Transverse)
+	}
+	for j := range l.Axial {
+		a, b := l.Keys[j], l.Keys[j+1]
+		h := b - a
+		p, q := l.Axial[j], l.Transverse[j]
+		r[0] += 0.5 * h * (math.Abs(p[0]) + math.Abs(p[1]))
+		across := 0.5 * h * (math.Abs(q[0]) + math.Abs(q[1]))
+		r[1] += across
+		r[2] += max(math.Abs(a), math.Abs(b)) * across
 	}
 	return r
 }

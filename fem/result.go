@@ -105,8 +105,12 @@ type Reaction struct {
 // Equilibrium compares applied loads with reactions, those of the supports
 // and of the foundations: Fx, Fy and the moment about x = 0. Residual =
 // Applied + Reactions, which must vanish. Ground is the part of Reactions
-// the foundations carry (zero without foundations).
+// the foundations carry (zero without foundations). Sizes are those of the
+// loads added up without their signs (Loads.Sizes; zero in a balance built
+// from Applied alone, Exact.Balance), the scale of the round-off in
+// Applied.
 type Equilibrium struct {
 	Applied, Reactions, Residual [3]float64
 	Ground                       [3]float64
+	Sizes                        [3]float64
 }

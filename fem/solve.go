@@ -258,6 +258,7 @@ func (st *Structure) Solve(l *Loads) (*Solution, error) {
 	}
 	s.Condition += levelRoundOff * float64(depth)
 	s.Equilibrium = equilibrium(l.Resultant(), s.Reactions, groundResultant(s.Foundations))
+	s.Equilibrium.Sizes = l.Sizes()
 	if err := checkUnderflow(s); err != nil {
 		return nil, err
 	}

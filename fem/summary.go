@@ -1007,9 +1007,10 @@ func relativeResidual(eq Equilibrium, force, moment float64) float64 {
 
 // EquilibriumScales are the force (N) and the moment about x = 0 (N·m)
 // that the residuals of equilibrium are judged against: the largest of the
-// loads, of the reactions summed, of each support's and foundation's own
-// force, which self-balancing actions (a temperature difference in a
-// continuous beam) leave large while their sum is nothing, and of what the
+// loads, of their sizes added up without signs (Equilibrium.Sizes), of the
+// reactions summed, of each support's and foundation's own force, which
+// self-balancing actions (a temperature difference in a continuous beam,
+// opposite couples) leave large while their sum is nothing, and of what the
 // imposed deformations would make if fully restrained (ImposedScales), in
 // the finite element solution s and, when e is not nil, the exact one. A
 // moment is carried by forces and a force by moments, so each is at least
@@ -1027,6 +1028,8 @@ func (s *Solution) EquilibriumScales(e *Exact) (force, moment float64) {
 		}
 		moment = max(moment, math.Abs(eq.Applied[2]), math.Abs(eq.Reactions[2]))
 	}
+	force = max(force, s.Equilibrium.Sizes[0], s.Equilibrium.Sizes[1])
+	moment = max(moment, s.Equilibrium.Sizes[2])
 	for _, rs := range reactions {
 		for _, r := range rs {
 			force = max(force, math.Abs(r.Force[Axial]), math.Abs(r.Force[Transverse]))
