@@ -14,6 +14,11 @@ import (
 // Caution is printed on every calculation sheet and exported drawing.
 const Caution = fem.Caution
 
+// CombinedStressNote says under a table of extremes what the combined
+// stress's are (fem.Extreme): those of both fibres, where the stress
+// diagram of one solution draws the larger fibre (fibreWords).
+const CombinedStressNote = "Combined stress N/A ± M·c/I: largest, the greatest tension, and smallest, the greatest compression, in either extreme fibre."
+
 // SheetNotes fill the title block of a calculation sheet.
 type SheetNotes struct {
 	Project, Mark, Engineer, Date, Version string
@@ -177,9 +182,10 @@ func (sh *sheet) reserve(in SheetInput) float32 {
 	line := TextHeight(sheetSmall) + 1
 	h := float32(0)
 	if s := in.Input.Solution; s != nil {
-		// The note, two headers, nine extremes, the inside supports'
-		// header, equilibrium, two lines on the mesh and one on the error.
-		h += line*float32(18+len(s.Reactions)+len(s.Foundations)+len(s.Model.Supports)) + 9 + 30
+		// The note, two headers, nine extremes and the note on the
+		// combined stress, the inside supports' header, equilibrium, two
+		// lines on the mesh and one on the error.
+		h += line*float32(19+len(s.Reactions)+len(s.Foundations)+len(s.Model.Supports)) + 9 + 30
 	} else {
 		h += 3*line + 25
 	}
@@ -472,6 +478,7 @@ func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 	for _, r := range extremes {
 		sh.row(r, xs, size, inkColour, false)
 	}
+	sh.para(CombinedStressNote, inkColour)
 	if len(sum.Supports) > 0 {
 		sh.y += 3
 		xs = []float32{sheetEdge, sheetEdge + 95, sheetEdge + 150, sheetEdge + 280, sheetEdge + 410}
