@@ -29,7 +29,7 @@ var diagramsList = []diagram{
 	{fem.QAxialForce, rgb(0x2e, 0x7d, 0x32), false, "tension + drawn above", func(o storage.Overlays) bool { return o.AxialForce }},
 	{fem.QShearForce, rgb(0x15, 0x65, 0xc0), false, "V = dM/dx, + drawn above", func(o storage.Overlays) bool { return o.ShearForce }},
 	{fem.QBendingMoment, rgb(0x7b, 0x1f, 0xa2), true, "sagging + drawn below (tension side)", func(o storage.Overlays) bool { return o.BendingMoment }},
-	{fem.QCombinedStress, rgb(0xa8, 0x4a, 0x00), false, "tension + drawn above", func(o storage.Overlays) bool { return o.Stress }},
+	{fem.QCombinedStress, rgb(0xa8, 0x4a, 0x00), false, "", func(o storage.Overlays) bool { return o.Stress }}, // fibreWords
 }
 
 // stripCount is the number of diagram strips o switches on.
@@ -52,6 +52,21 @@ func quantityWords(q fem.Quantity) string {
 		return info.Name
 	}
 	return info.Name + " " + info.Symbol
+}
+
+// fibreWords are the combined stress strip's name and its sign convention:
+// of one solution it draws, at each place, N/A ± M·c/I in the extreme
+// fibre where it is larger in magnitude (fem.Fields.CombinedStress), the
+// bottom one where no axial force acts, while the results' largest and
+// smallest combined stress are the greatest tension and compression of
+// both fibres, which can lie beyond the curve (the top fibre's tension
+// over an inner support); the envelope of combinations draws both fibres'
+// (fem.CombinationSolutions.At), as the results give them.
+func fibreWords(envelope bool) (name, convention string) {
+	if envelope {
+		return "combined stress, both fibres", "Tension + drawn above: the upper curve is the greatest tension and the lower the greatest compression of both extreme fibres, N/A ± M·c/I, as in the results."
+	}
+	return "combined stress, larger fibre", "Tension + drawn above. Drawn is N/A ± M·c/I in the extreme fibre where it is larger in magnitude (the bottom fibre, M·c/I, where no axial force acts); the results' combined stress is of both fibres, so its largest and smallest can lie beyond this curve."
 }
 
 // capitalized is s with its first letter in upper case.
@@ -192,7 +207,11 @@ func (b *builder) strip(sd stripData) {
 	if b.in.Unreliable {
 		b.place(text1("UNRELIABLE", labelSize, problemColour, true, labelSpot{b.v.Width - 8, st.top + 5, 1, 0}))
 	}
-	title := capitalized(quantityWords(d.quantity)) + " [" + b.u.Unit(unit).Symbol + "]"
+	name, convention := quantityWords(d.quantity), capitalized(d.legend)+"."
+	if d.quantity == fem.QCombinedStress {
+		name, convention = fibreWords(sd.env != nil)
+	}
+	title := capitalized(name) + " [" + b.u.Unit(unit).Symbol + "]"
 	header := []legendItem{{text: title, size: titleSize, colour: d.colour, bold: true}}
 	if sd.env != nil {
 		text := "envelope of the combinations, upper and lower curve"
@@ -210,10 +229,9 @@ func (b *builder) strip(sd stripData) {
 	innerTop := b.legendRow(header, 8, st.top+4, b.v.Width-8) + 8
 	// The sign convention and how the field behaves inside an element, or
 	// the convention alone where the curve would have too little room.
-	convention := capitalized(d.legend) + "."
 	footer := []string{convention}
 	if fe != nil {
-		footer = []string{convention + " " + b.insideElement(d.quantity), convention}
+		footer = []string{convention + " " + b.insideElement(d.quantity, sd.env != nil), convention}
 	}
 	innerBottom := b.footer(footer, innerTop, st.bottom)
 	if unit == units.Stress {

@@ -145,8 +145,9 @@ func degreeWords(d int) string {
 }
 
 // insideElement is one plain sentence on how the finite element q behaves
-// inside an element and across its nodes, from Solution.Varies.
-func (b *builder) insideElement(q fem.Quantity) string {
+// inside an element and across its nodes, from Solution.Varies; of the
+// combined stress of an envelope, both fibres (fibreWords).
+func (b *builder) insideElement(q fem.Quantity, envelope bool) string {
 	s := b.in.Solution
 	name := q.Info().Name
 	if bar, _ := s.Model.Formulations(); s.AxialOnly && bar.Varies(q).Degree < 0 && q != fem.QCombinedStress {
@@ -157,8 +158,12 @@ func (b *builder) insideElement(q fem.Quantity) string {
 		for _, p := range ps {
 			each = append(each, fmt.Sprintf("the %s (%s)", p.Info().Name, degreeWords(s.Varies(p).Degree)))
 		}
-		return fmt.Sprintf("Inside each element the FE %s is the larger fibre of %s, so it may jump inside an element and at the nodes.",
-			name, strings.Join(each, " and "))
+		fibre := "the larger fibre of"
+		if envelope {
+			fibre = "taken in both fibres from"
+		}
+		return fmt.Sprintf("Inside each element the FE %s is %s %s, so it may jump inside an element and at the nodes.",
+			name, fibre, strings.Join(each, " and "))
 	}
 	v := s.Varies(q)
 	if v.Nodal {

@@ -14,6 +14,11 @@ import (
 // Caution is printed on every calculation sheet and exported drawing.
 const Caution = fem.Caution
 
+// CombinedStressNote says under a table of extremes what the combined
+// stress's are (fem.Extreme): those of both fibres, where the stress
+// diagram of one solution draws the larger fibre (fibreWords).
+const CombinedStressNote = "Combined stress N/A ± M·c/I: largest, the greatest tension, and smallest, the greatest compression, in either extreme fibre."
+
 // SheetNotes fill the title block of a calculation sheet.
 type SheetNotes struct {
 	Project, Mark, Engineer, Date, Version string
@@ -177,9 +182,10 @@ func (sh *sheet) reserve(in SheetInput) float32 {
 	line := TextHeight(sheetSmall) + 1
 	h := float32(0)
 	if s := in.Input.Solution; s != nil {
-		// The note, two headers, nine extremes, the inside supports'
-		// header, equilibrium, two lines on the mesh and one on the error.
-		h += line*float32(18+len(s.Reactions)+len(s.Foundations)+len(s.Model.Supports)) + 9 + 30
+		// The note, two headers, nine extremes and the note on the
+		// combined stress, the inside supports' header, equilibrium, two
+		// lines on the mesh and one on the error.
+		h += line*float32(19+len(s.Reactions)+len(s.Foundations)+len(s.Model.Supports)) + 9 + 30
 	} else {
 		h += 3*line + 25
 	}
@@ -331,10 +337,15 @@ func (sh *sheet) modelTable(m *fem.Model) {
 	}
 }
 
+// tableGap is the least room between two columns of a table, points.
+const tableGap = 4
+
 // tableColumns places the columns of a table of rows under the bold head
 // in type of size across width from the sheet's edge: each column as wide
-// as its widest text, the room left over shared out between them.
-func tableColumns(head []string, rows [][]string, size, width float32) []float32 {
+// as its widest text, the room left over shared out between them. A
+// table too wide for width at size, with tableGap between its columns,
+// is set in the smaller type that fits, returned as fitted.
+func tableColumns(head []string, rows [][]string, size, width float32) (xs []float32, fitted float32) {
 	widths := make([]float32, len(head))
 	for i, h := range head {
 		widths[i] = textWidth(h, size, true)
@@ -348,17 +359,27 @@ func tableColumns(head []string, rows [][]string, size, width float32) []float32
 	for _, w := range widths {
 		used += w
 	}
-	gap := float32(0)
-	if len(widths) > 1 {
-		gap = max(0, (width-used)/float32(len(widths)-1))
+	gaps := float32(len(widths) - 1)
+	fitted = size
+	if used > 0 && used+gaps*tableGap > width {
+		// Text is as wide as its type is large.
+		k := (width - gaps*tableGap) / used
+		fitted, used = size*k, used*k
+		for i := range widths {
+			widths[i] *= k
+		}
 	}
-	xs := make([]float32, len(widths))
+	gap := float32(0)
+	if gaps > 0 {
+		gap = (width - used) / gaps
+	}
+	xs = make([]float32, len(widths))
 	x := float32(sheetEdge)
 	for i, w := range widths {
 		xs[i] = x
 		x += w + gap
 	}
-	return xs
+	return xs, fitted
 }
 
 // resultsTable lists the reactions, extremes and actions at the supports
@@ -369,7 +390,7 @@ func tableColumns(head []string, rows [][]string, size, width float32) []float32
 func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 	f := u.Format
 	sh.heading("Results")
-	note := "Values are the exact solution of the model; FE is the finite element answer on this mesh."
+	note := "Values are the exact solution of the model; FE is the finite element answer on this mesh, and \"FE at\" where it lies (\"same\": at the exact value's place)."
 	if !sum.Exact {
 		note = "There is no exact solution of this model: every value is the finite element (FE) one."
 	}
@@ -426,10 +447,20 @@ func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 	sh.y += 3
 	// Each extreme's place says the side of a jump as the text output
 	// does (fem.Side.Place), so the columns are as wide as what they hold.
+	// A finite element extreme has its own place, which need not be the
+	// exact one's (the shear force of an element is constant, so it peaks
+	// at the element's end): "same" where it is, so that a jump's long
+	// places fit the page twice over.
 	place := func(x float64, side fem.Side) string { return side.Place(f(units.Position, x)) }
+	feAt := func(x float64, side fem.Side, exact string) string {
+		if p := place(x, side); p != exact {
+			return p
+		}
+		return "same"
+	}
 	titles := []string{"quantity", "largest FE", "at", "smallest FE", "at"}
 	if sum.Exact {
-		titles = []string{"quantity", "largest", "at", "FE", "smallest", "at", "FE", "FE accuracy"}
+		titles = []string{"quantity", "largest", "at", "FE", "FE at", "smallest", "at", "FE", "FE at", "FE accuracy"}
 	}
 	var extremes [][]string
 	for _, e := range sum.Extremes {
@@ -438,14 +469,16 @@ func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 			extremes = append(extremes, []string{quantityWords(e.Quantity), f(q, e.FEMax), place(e.FEXMax, e.FESideMax), f(q, e.FEMin), place(e.FEXMin, e.FESideMin)})
 			continue
 		}
-		extremes = append(extremes, []string{quantityWords(e.Quantity), f(q, e.Max), place(e.XMax, e.SideMax), f(q, e.FEMax),
-			f(q, e.Min), place(e.XMin, e.SideMin), f(q, e.FEMin), units.FormatG("%.3g %%", 100*e.Accuracy)})
+		hi, lo := place(e.XMax, e.SideMax), place(e.XMin, e.SideMin)
+		extremes = append(extremes, []string{quantityWords(e.Quantity), f(q, e.Max), hi, f(q, e.FEMax), feAt(e.FEXMax, e.FESideMax, hi),
+			f(q, e.Min), lo, f(q, e.FEMin), feAt(e.FEXMin, e.FESideMin, lo), units.FormatG("%.3g %%", 100*e.Accuracy)})
 	}
-	xs = tableColumns(titles, extremes, sheetSmall, a4Width-2*sheetEdge)
-	sh.row(titles, xs, sheetSmall, faintColour, true)
+	xs, size := tableColumns(titles, extremes, sheetSmall, a4Width-2*sheetEdge)
+	sh.row(titles, xs, size, faintColour, true)
 	for _, r := range extremes {
-		sh.row(r, xs, sheetSmall, inkColour, false)
+		sh.row(r, xs, size, inkColour, false)
 	}
+	sh.para(CombinedStressNote, inkColour)
 	if len(sum.Supports) > 0 {
 		sh.y += 3
 		xs = []float32{sheetEdge, sheetEdge + 95, sheetEdge + 150, sheetEdge + 280, sheetEdge + 410}

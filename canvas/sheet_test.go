@@ -353,3 +353,138 @@ func TestSheetMeshLineAsTheText(t *testing.T) {
 		t.Errorf("the sheet does not say %q:\n%s", want, text)
 	}
 }
+
+// pageRows are the texts of page's lines in small type, each line's from
+// left to right, by their height on the page.
+func pageRows(page *Scene) map[float32][]Item {
+	rows := map[float32][]Item{}
+	for _, it := range page.Items {
+		if it.Kind == Text && it.Text != "" {
+			rows[it.At.Y] = append(rows[it.At.Y], it)
+		}
+	}
+	for _, row := range rows {
+		slices.SortFunc(row, func(a, b Item) int { return cmp.Compare(a.At.X, b.At.X) })
+	}
+	return rows
+}
+
+// The extremes table says where each finite element extreme is, beside
+// the exact one's place: on 16 elements the finite element shear force of
+// two spans (twoSpans) is smallest, −22.5 kN, first at 3.5 m, not just
+// left of the middle support where the exact −25 kN = −5wL/8 is (two equal
+// spans under a uniform load, beam tables, from memory), and largest,
+// 22.5 kN, just right of it as the exact 25 kN is (constant in each
+// element: fem's TestSummarySaysTheSideOfAJump). The sheet gave "FE -22.50 kN" with no place of
+// its own, read as at the exact one's. Every shipped model's row gives
+// each finite element extreme's own place ("same" where it is the exact
+// one's), in SI and US units, its texts clear of each other and on the page.
+func TestSheetSaysWhereTheFEExtremesAre(t *testing.T) {
+	for _, u := range units.Systems() {
+		in := solved(t, twoSpans())
+		in.Units = u
+		f := u.Format
+		at := func(x float64) string { return f(units.Position, x) }
+		want := []string{"shear force V", f(units.Force, 25e3), "just right of " + at(4), f(units.Force, 22.5e3), "same",
+			f(units.Force, -25e3), "just left of " + at(4), f(units.Force, -22.5e3), at(3.5)}
+		found := false
+		for _, row := range pageRows(buildSheet(SheetInput{Input: in, Notes: SheetNotes{Version: "test"}})) {
+			if row[0].Text != want[0] {
+				continue
+			}
+			found = true
+			var got []string
+			for _, it := range row[:min(len(row), len(want))] {
+				got = append(got, it.Text)
+			}
+			if !slices.Equal(got, want) {
+				t.Errorf("%s: the shear force's extremes read %q, want %q", u.Name, got, want)
+			}
+		}
+		if !found {
+			t.Errorf("%s: the sheet has no row of the shear force's extremes", u.Name)
+		}
+	}
+	for _, c := range shippedCases(t) {
+		if !strings.HasSuffix(c.name, "saved overlays") {
+			continue
+		}
+		for _, u := range units.Systems() {
+			in := c.in
+			in.Units = u
+			f := u.Format
+			place := func(x float64, side fem.Side) string { return side.Place(f(units.Position, x)) }
+			feAt := func(x float64, side fem.Side, exact string) string {
+				if p := place(x, side); p != exact {
+					return p
+				}
+				return "same"
+			}
+			sum := fem.Summarize(in.Solution, in.Exact)
+			rows := pageRows(buildSheet(SheetInput{Input: in, Notes: SheetNotes{Version: "test"}}))
+			for _, e := range sum.Extremes {
+				q := e.Quantity.Info().Unit
+				hi, lo := place(e.XMax, e.SideMax), place(e.XMin, e.SideMin)
+				want := []string{quantityWords(e.Quantity), f(q, e.Max), hi, f(q, e.FEMax), feAt(e.FEXMax, e.FESideMax, hi),
+					f(q, e.Min), lo, f(q, e.FEMin), feAt(e.FEXMin, e.FESideMin, lo)}
+				found := false
+				for _, row := range rows {
+					if row[0].Text != want[0] {
+						continue
+					}
+					found = true
+					var got []string
+					for _, it := range row[:min(len(row), len(want))] {
+						got = append(got, it.Text)
+					}
+					if !slices.Equal(got, want) {
+						t.Errorf("%s, %s: the extremes read %q, want %q", c.name, u.Name, got, want)
+					}
+				}
+				if !found {
+					t.Errorf("%s, %s: no row of the %s", c.name, u.Name, want[0])
+				}
+			}
+			for _, row := range rows {
+				for i, it := range row {
+					if i > 0 && row[i-1].At.X+row[i-1].Width > it.At.X {
+						t.Errorf("%s, %s: %q runs into %q", c.name, u.Name, row[i-1].Text, it.Text)
+					}
+					if it.At.X+it.Width > a4Width-sheetEdge+1 {
+						t.Errorf("%s, %s: %q runs off the page", c.name, u.Name, it.Text)
+					}
+				}
+			}
+		}
+	}
+}
+
+// A table too wide for the page at the sheet's type is set in smaller
+// type, with its columns apart and inside the width; one that fits keeps
+// the sheet's type and shares the room left over between its columns.
+func TestTableColumnsFitTheWidth(t *testing.T) {
+	long := "just right of 4.000 m, a place longer than any"
+	for _, c := range []struct {
+		name  string
+		row   []string
+		small bool // the table must be set in smaller type
+	}{
+		{"fits", []string{"shear force V", "25.00 kN", "4.000 m"}, false},
+		{"too wide", []string{"shear force V", long, long, long, long, long}, true},
+	} {
+		head := make([]string, len(c.row))
+		xs, size := tableColumns(head, [][]string{c.row}, sheetSmall, a4Width-2*sheetEdge)
+		if c.small != (size < sheetSmall) {
+			t.Errorf("%s: set in %g pt type, want smaller than %g: %v", c.name, size, float32(sheetSmall), c.small)
+		}
+		for i, s := range c.row {
+			end := xs[i] + textWidth(s, size, false)
+			if i+1 < len(xs) && end+tableGap > xs[i+1]+0.01 {
+				t.Errorf("%s: column %d ends at %g, within %d pt of the next at %g", c.name, i, end, tableGap, xs[i+1])
+			}
+			if end > a4Width-sheetEdge+0.01 {
+				t.Errorf("%s: column %d ends at %g, off the page at %g", c.name, i, end, a4Width-sheetEdge)
+			}
+		}
+	}
+}

@@ -357,8 +357,10 @@ func (t *stretchTakes) into(x *extremes) {
 // withExact makes the exact extremes ex the headline values of list and
 // measures the finite element ones against them. A stress is measured
 // against the stress sizes of the segments where the extremes lie
-// (floorSizes.stressNear).
-func withExact(list []Extreme, ex *extremes, m *Model, floor floorSizes) {
+// (floorSizes.stressNear). scales are the sizes each quantity was
+// measured against (fieldScale), 0 where it has none: a value of it
+// negligible against its scale is round-off and reads 0.
+func withExact(list []Extreme, ex *extremes, m *Model, floor floorSizes) (scales [quantityCount]float64) {
 	exact := ex.list()
 	var largest [quantityCount]float64
 	for i, e := range exact {
@@ -375,14 +377,21 @@ func withExact(list []Extreme, ex *extremes, m *Model, floor floorSizes) {
 			near = floor.stressNear(m, e.XMax, e.XMin, e.FEXMax, e.FEXMin)
 		}
 		if scale := fieldScale(e.Quantity, &largest, L, near); scale > 0 {
+			scales[e.Quantity] = scale
 			e.Accuracy = off / scale
 			// A value that is round-off against the field's size (a moment
 			// at a free end, 1e-14 kN·m) is zero, as the closed form says.
-			for _, v := range [4]*float64{&e.Max, &e.Min, &e.FEMax, &e.FEMin} {
-				if math.Abs(*v) <= negligible*scale {
-					*v = 0
-				}
-			}
+			dropRoundOffValues(scale, &e.Max, &e.Min, &e.FEMax, &e.FEMin)
+		}
+	}
+	return scales
+}
+
+// dropRoundOffValues sets to zero each of vs negligible against scale.
+func dropRoundOffValues(scale float64, vs ...*float64) {
+	for _, v := range vs {
+		if math.Abs(*v) <= negligible*scale {
+			*v = 0
 		}
 	}
 }
@@ -858,11 +867,20 @@ func (z *Summarizer) Summary() Summary {
 	}
 	sum.Foundations = foundationSummaries(s, ex)
 	sum.Extremes = z.extremes.list()
+	var scales [quantityCount]float64
 	if ex != nil {
-		withExact(sum.Extremes, ex.ownExtremes(), &s.Model, forceFloor(s, ex))
+		scales = withExact(sum.Extremes, ex.ownExtremes(), &s.Model, forceFloor(s, ex))
 	}
 	readExtremeSides(sum.Extremes, s, ex)
 	sum.Supports = supportActions(s, ex)
+	// The actions at the supports read round-off as zero as the extremes
+	// do (the shear force at mid-length of a symmetric member under
+	// symmetric loads).
+	for i := range sum.Supports {
+		a := &sum.Supports[i]
+		dropRoundOffValues(scales[QShearForce], &a.Shear[0], &a.Shear[1], &a.FEShear[0], &a.FEShear[1])
+		dropRoundOffValues(scales[QBendingMoment], &a.Moment[0], &a.Moment[1], &a.FEMoment[0], &a.FEMoment[1])
+	}
 	if s.AxialOnly {
 		sum.axialOnly()
 	}

@@ -7,6 +7,7 @@ import (
 	"strings"
 	"text/tabwriter"
 
+	"stave/canvas"
 	"stave/fem"
 	"stave/fem/analysis"
 	"stave/fem/check"
@@ -662,7 +663,7 @@ func WriteResultsText(w io.Writer, src Source) {
 		}
 	}
 	tw.Flush()
-	fmt.Fprintln(w, "  Combined stress N/A ± M·c/I: largest, the greatest tension, and smallest, the greatest compression, in either extreme fibre.")
+	fmt.Fprintln(w, "  "+canvas.CombinedStressNote)
 	if feBeside {
 		fmt.Fprintln(w, "  FE accuracy: the larger |FE − exact| of the two extremes, as a share of the field's largest magnitude.")
 	}

@@ -586,7 +586,11 @@ func (p *Probe) feBeside(o Options, k units.Kind, value float64, fe peak) string
 		return ""
 	}
 	diff := ""
-	if value != 0 {
+	switch {
+	case value == 0:
+	case fe.value == value:
+		diff = ", 0 %" // no sign on nothing
+	default:
 		diff = ", " + units.FormatG("%+.3g %%", 100*(fe.value-value)/value)
 	}
 	return fmt.Sprintf("The finite element solution on this mesh gives %s at x = %s (FE − exact %s%s). ",

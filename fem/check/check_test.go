@@ -1069,3 +1069,35 @@ func TestStressOfAWeakSegmentMovedByItsNeighbours(t *testing.T) {
 		}
 	}
 }
+
+// A finite element value equal to the exact one differs from it by 0 %,
+// not "+0 %": Hermite beam elements give a cantilever's tip deflection
+// under a tip load exactly, P·L³/(3EI) = 10e3 · 4³ / (3 · 200e9 · 8e-6) =
+// 133.3 mm (nodal exactness of cubic elements for loads at the nodes, and
+// the cantilever formula of beam tables, from memory), and the deflection
+// check read "(FE − exact 0 mm, +0 %)", a sign on nothing.
+func TestNoSignOnAZeroShare(t *testing.T) {
+	m := fem.Model{Segments: []fem.Segment{{Start: 0, End: 4,
+		Section:  fem.Section{Area: 0.004, SecondMoment: 8e-6, FibreDistance: 0.1},
+		Material: fem.Material{Name: "steel", Elastic: 200e9}}},
+		Supports:   []fem.Support{{X: 0, Kind: fem.Fixed}},
+		PointLoads: []fem.PointLoad{{X: 4, Transverse: -10e3}},
+		Mesh:       fem.MeshSettings{Elements: 4}}
+	s, e := solveBoth(t, &m)
+	found := false
+	for _, r := range Run(&m, s, e, DefaultOptions()) {
+		if r.Code != CodeDeflection {
+			continue
+		}
+		found = true
+		if want := "(FE − exact 0 mm, 0 %)"; r.FE == r.Value && !strings.Contains(r.Message, want) {
+			t.Errorf("%s: FE %g equals exact %g, want %q in: %s", r.Name, r.FE, r.Value, want, r.Message)
+		}
+		if strings.Contains(r.Message, "+0 %") || strings.Contains(r.Message, "-0 %") {
+			t.Errorf("%s: a sign on a zero share: %s", r.Name, r.Message)
+		}
+	}
+	if !found {
+		t.Error("no deflection check of the cantilever")
+	}
+}
