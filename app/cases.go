@@ -123,7 +123,7 @@ func (r *readout) showEnvelope(w *Window, x float64) bool {
 type casesPanel struct {
 	w                                         *Window
 	box                                       *fyne.Container
-	caseSelect, showSelect                    *widget.Select
+	caseSelect, showSelect                    *escSelect
 	selfWeight, settlements, gradient, bySpan *widget.Check
 	showing                                   []analysis.Show // the choices of showSelect
 	// bar holds the choices above the drawing: laid out again when their
@@ -135,12 +135,12 @@ type casesPanel struct {
 // newCasesPanel builds the panel; refresh fills it.
 func newCasesPanel(w *Window) *casesPanel {
 	c := &casesPanel{w: w}
-	c.caseSelect = widget.NewSelect(nil, func(s string) {
+	c.caseSelect = w.newSelect(nil, func(s string) {
 		if !c.updating {
 			w.chooseCase(c.caseSelect.SelectedIndex())
 		}
 	})
-	c.showSelect = widget.NewSelect(nil, func(string) {
+	c.showSelect = w.newSelect(nil, func(string) {
 		if i := c.showSelect.SelectedIndex(); !c.updating && i >= 0 && i < len(c.showing) {
 			w.setShow(c.showing[i])
 		}

@@ -16,7 +16,8 @@ import (
 // a dialog's button (after Tab) Escape did nothing; this one hands Escape
 // to onEscape (the window's escape, which closes the dialog on top as its
 // Cancel or Close button does), as escEntry does in a field. Enter presses
-// it, as Space does.
+// it, as Space does. The moving-loads window has such buttons too, whose
+// onEscape closes that window (movingWindow.newButton).
 type dialogButton struct {
 	ringButton
 	onEscape func()

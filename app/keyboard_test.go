@@ -3,6 +3,7 @@ package app
 import (
 	"image/color"
 	"math"
+	"reflect"
 	"slices"
 	"testing"
 
@@ -297,6 +298,180 @@ func TestDialogsStrongButtonsShowTheFocus(t *testing.T) {
 		}
 		if strong == 0 {
 			t.Errorf("%s: no button with a focus ring", d.name)
+		}
+	}
+}
+
+// selectsOf are the selects Tab reaches on c from no focus.
+func selectsOf(c fyne.Canvas) []fyne.Focusable {
+	var ss []fyne.Focusable
+	for _, f := range tabOrder(c) {
+		if selectIn(f.(fyne.CanvasObject)) != nil {
+			ss = append(ss, f)
+		}
+	}
+	return ss
+}
+
+// Enter (Return, or Enter on the keypad) on a select where Tab puts it
+// opens its list, as Space does, and the list takes the focus: fyne's
+// select ignored Enter, so a keyboard user got a list only by Space or an
+// arrow. Every select of the window's panels (a support selected, so that
+// its kind is offered), of its dialogs and of the moving-loads window.
+func TestEnterOpensASelectsList(t *testing.T) {
+	places := []struct {
+		name string
+		open func(t *testing.T) fyne.Canvas
+	}{
+		{"the panels", func(t *testing.T) fyne.Canvas {
+			w, _ := openTestdata(t, "two_span_cases.json", laptop)
+			w.selectItem(canvas.Ref{Kind: canvas.Support, Index: 0})
+			return w.win.Canvas()
+		}},
+		{"the moving-loads window", func(t *testing.T) fyne.Canvas {
+			_, _, mw := runwayWindow(t)
+			return mw.win.Canvas()
+		}},
+	}
+	for _, d := range escapeDialogs {
+		if slices.Contains(dialogsWithChoosers, d.name) && d.name != "nodal loads table" { // a table alone
+			places = append(places, struct {
+				name string
+				open func(t *testing.T) fyne.Canvas
+			}{"the dialog " + d.name, func(t *testing.T) fyne.Canvas {
+				_, c := dialogOnTwoSpans(t, d.name, func(w *Window) { d.show(t, w) })
+				return c
+			}})
+		}
+	}
+	for _, p := range places {
+		c := p.open(t)
+		selects := selectsOf(c)
+		if len(selects) == 0 {
+			t.Errorf("%s: Tab reaches no select", p.name)
+		}
+		for _, f := range selects {
+			for _, key := range []fyne.KeyName{fyne.KeyReturn, fyne.KeyEnter} {
+				tabTo(t, c, f)
+				overlays := len(c.Overlays().List())
+				f.TypedKey(&fyne.KeyEvent{Name: key})
+				if len(c.Overlays().List()) != overlays+1 || c.Focused() == f {
+					t.Errorf("%s: %s on its %s opened no list", p.name, key, nameOf(f.(fyne.CanvasObject)))
+					continue
+				}
+				c.Focused().TypedKey(&fyne.KeyEvent{Name: fyne.KeyEscape}) // closes the list alone
+			}
+		}
+	}
+}
+
+// Escape on a select, a table or an entry of the panels, where Tab puts
+// it, gives the focus back to the drawing, as Escape in the properties'
+// numbers did already (Window.escape), and leaves the selection and the
+// member as they were; a second Escape, on the drawing, selects nothing
+// (keyNothing). The selects, the readout's table and the snapping step
+// and element count took the key and ignored it, so the focus stayed
+// where it was.
+func TestEscapeInThePanelsGoesToTheDrawing(t *testing.T) {
+	w, _ := openTestdata(t, "two_span_cases.json", laptop)
+	c := w.win.Canvas()
+	selected := canvas.Ref{Kind: canvas.Support, Index: 0}
+	w.selectItem(selected)
+	kinds := map[string]int{}
+	for _, f := range tabOrder(c) {
+		o := f.(fyne.CanvasObject)
+		var kind string
+		switch {
+		case selectIn(o) != nil:
+			kind = "select"
+		case isTable(o):
+			kind = "table"
+		default:
+			if _, ok := o.(*escEntry); ok {
+				kind = "entry"
+			} else if _, ok := o.(*widget.Entry); ok {
+				kind = "entry"
+			}
+		}
+		if kind == "" {
+			continue
+		}
+		kinds[kind]++
+		tabTo(t, c, f)
+		before := cloneProject(w.project)
+		f.TypedKey(&fyne.KeyEvent{Name: fyne.KeyEscape})
+		if any(c.Focused()) != any(w.draw) {
+			t.Errorf("Escape on the %s %s left the focus on %s, want the drawing", kind, nameOf(o), focusName(c))
+		}
+		if w.selected != selected || !reflect.DeepEqual(w.project, before) || c.Overlays().Top() != nil {
+			t.Errorf("Escape on the %s %s changed the selection to %+v, or the member, or opened a dialog", kind, nameOf(o), w.selected)
+			w.selectItem(selected)
+		}
+	}
+	for _, kind := range []string{"select", "table", "entry"} {
+		if kinds[kind] == 0 {
+			t.Errorf("Tab reaches no %s in the panels", kind)
+		}
+	}
+	typeToFocused(t, w, fyne.KeyEscape)
+	if w.selected != canvasNone {
+		t.Errorf("a second Escape, on the drawing, left %+v selected, want nothing", w.selected)
+	}
+}
+
+// focusName names what has the focus on c, to name it in a failure.
+func focusName(c fyne.Canvas) string {
+	if f := c.Focused(); f != nil {
+		return nameOf(f.(fyne.CanvasObject))
+	}
+	return "nothing"
+}
+
+// Escape closes the moving-loads window, as it closes a dialog of the
+// main window, with the focus nowhere and with it on any widget Tab
+// reaches there (the picture too), leaving the project's trains as they
+// were though a field holds a change not applied; on a select whose list
+// is open, the first Escape closes the list alone. Escape did nothing
+// there: the window's canvas had no keys of its own, and fyne's entries,
+// selects, check boxes and buttons ignore Escape.
+func TestEscapeClosesTheMovingLoadsWindow(t *testing.T) {
+	for k := -1; ; k++ {
+		w, _, mw := runwayWindow(t)
+		c := mw.win.Canvas()
+		order := tabOrder(c)
+		if k == 0 && len(order) == 0 {
+			t.Fatal("Tab reaches nothing in the moving-loads window")
+		}
+		if k >= len(order) {
+			break
+		}
+		mw.name.SetText("a name not applied")
+		before := cloneProject(w.project)
+		what := "with the focus nowhere"
+		if k < 0 {
+			c.Unfocus()
+			if typed := c.OnTypedKey(); typed != nil { // as the driver gives the canvas a key no widget takes
+				typed(&fyne.KeyEvent{Name: fyne.KeyEscape})
+			}
+		} else {
+			f := order[k]
+			what = "on its " + nameOf(f.(fyne.CanvasObject))
+			tabTo(t, c, f)
+			if selectIn(f.(fyne.CanvasObject)) != nil {
+				f.TypedKey(&fyne.KeyEvent{Name: fyne.KeySpace})
+				c.Focused().TypedKey(&fyne.KeyEvent{Name: fyne.KeyEscape})
+				if w.moving == nil || c.Focused() != f {
+					t.Errorf("the moving-loads window: Escape in the open list of its %s closed the window, or left the focus off the select", nameOf(f.(fyne.CanvasObject)))
+					continue
+				}
+			}
+			f.TypedKey(&fyne.KeyEvent{Name: fyne.KeyEscape})
+		}
+		if w.moving != nil {
+			t.Errorf("the moving-loads window: Escape %s left it open", what)
+		}
+		if !reflect.DeepEqual(w.project, before) {
+			t.Errorf("the moving-loads window: Escape %s changed the project", what)
 		}
 	}
 }

@@ -60,6 +60,8 @@ func nameOf(o fyne.CanvasObject) string {
 	switch v := o.(type) {
 	case *widget.Check:
 		return "switch " + quoteOr(v.Text, "")
+	case *escCheck:
+		return "switch " + quoteOr(v.Text, "")
 	case *widget.Select:
 		return "choice " + quoteOr(v.Selected, "")
 	case *escSelect:
@@ -83,6 +85,8 @@ func fyneTypeName(o fyne.CanvasObject) string {
 	switch o.(type) {
 	case *drawing:
 		return "drawing"
+	case *movingPicture:
+		return "picture"
 	case *widget.Table, *escTable:
 		return "table"
 	case *widget.List:
@@ -97,7 +101,7 @@ func fyneTypeName(o fyne.CanvasObject) string {
 func TestChoicesShowTheirWholeText(t *testing.T) {
 	for _, name := range []string{"demo.json", "two_span_cases.json"} {
 		w, _ := openTestdata(t, name, laptop)
-		for _, s := range []*widget.Select{w.ui.cases.showSelect, w.ui.cases.caseSelect} {
+		for _, s := range []*escSelect{w.ui.cases.showSelect, w.ui.cases.caseSelect} {
 			for _, o := range s.Options {
 				// The room for the text: the select's width less its
 				// icon, the padding by the icon, and the label's inset

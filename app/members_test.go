@@ -390,7 +390,7 @@ func TestSupportKindChangeKeepsFreeSprings(t *testing.T) {
 	w.selectItem(canvas.Ref{Kind: canvas.Support, Index: 2})
 	var kind *widget.Select
 	for _, o := range test.LaidOutObjects(w.ui.properties) {
-		if s, ok := o.(*widget.Select); ok {
+		if s := selectIn(o); s != nil {
 			kind = s
 		}
 	}

@@ -45,19 +45,19 @@ type controls struct {
 	w            *Window
 	toolButtons  map[tool]*ringButton
 	strip        *container.Scroll // the tools and the load cases, left of the drawing
-	kindSelect   *widget.Select
+	kindSelect   *escSelect
 	cases        *casesPanel
 	properties   *fyne.Container // the properties pane, rebuilt for each kind of item
 	panel        propertiesPanel
 	readout      *readout
 	checks       *checksList
-	elements     *widget.Entry
+	elements     *escEntry
 	elementsUsed *widget.Label // the element count actually solved
 	layerChecks  map[*bool]*widget.Check
-	order        *widget.Select
+	order        *escSelect
 	orders       []barOrder
-	unitSelect   *widget.Select
-	grid         *widget.Entry
+	unitSelect   *escSelect
+	grid         *escEntry
 	magnify      *widget.Slider
 	magnifyText  *widget.Label
 }
@@ -84,7 +84,7 @@ func (w *Window) build() {
 	for i, k := range supportKinds {
 		names[i] = k.String()
 	}
-	c.kindSelect = widget.NewSelect(names, nil)
+	c.kindSelect = w.newSelect(names, nil)
 	c.kindSelect.SetSelected(w.kind.String())
 	c.kindSelect.OnChanged = func(s string) {
 		if k, ok := fem.ParseSupportKind(s); ok {
@@ -99,6 +99,7 @@ func (w *Window) build() {
 
 	c.properties = container.NewStack()
 	c.readout = newReadout()
+	c.readout.table.OnEscape = w.escape
 	c.checks = newChecksList(w)
 	readoutAndChecks := container.NewVSplit(c.readout.pane(), c.checks.pane())
 	readoutAndChecks.SetOffset(0.5)
@@ -139,10 +140,11 @@ func heading(s string) *widget.Label {
 // actionBar holds the commands above the drawing, the snapping step and the units.
 func (c *controls) actionBar() fyne.CanvasObject {
 	w := c.w
-	c.grid = widget.NewEntry()
+	c.grid = newEscEntry()
+	c.grid.OnEscape = w.escape
 	c.grid.OnSubmitted = func(s string) { w.setGrid(s) }
 	c.showGrid()
-	c.unitSelect = widget.NewSelect([]string{units.SI.Name + " units", units.USCustomary.Name + " units"}, func(s string) {
+	c.unitSelect = w.newSelect([]string{units.SI.Name + " units", units.USCustomary.Name + " units"}, func(s string) {
 		if sys, ok := units.ByName(strings.TrimSuffix(s, " units")); ok && sys.Name != w.units.Name {
 			w.setUnits(sys)
 		}
@@ -183,7 +185,8 @@ func barOrders() (orders []barOrder, beam string) {
 // meshBar makes the mesh settings shown below the drawing.
 func (c *controls) meshBar() []fyne.CanvasObject {
 	w := c.w
-	c.elements = widget.NewEntry()
+	c.elements = newEscEntry()
+	c.elements.OnEscape = w.escape
 	c.elements.OnSubmitted = func(s string) { w.setElements(s) }
 	finer := widget.NewButton("Double", func() { w.scaleElements(2) })
 	coarser := widget.NewButton("Halve", func() { w.scaleElements(0.5) })
@@ -193,7 +196,7 @@ func (c *controls) meshBar() []fyne.CanvasObject {
 	for i, o := range orders {
 		names[i] = o.name
 	}
-	c.order = widget.NewSelect(names, func(s string) {
+	c.order = w.newSelect(names, func(s string) {
 		for _, o := range c.orders {
 			if o.name == s && o.order != orderOf(w.project.Model.Mesh) {
 				w.apply("use "+s+" elements for the axial part", func(m *fem.Model) error { m.Mesh.BarOrder = o.order; return nil })

@@ -302,7 +302,7 @@ func (c *controls) choices(r canvas.Ref) []fyne.CanvasObject {
 		for i, k := range supportKinds {
 			names[i] = k.String()
 		}
-		s := widget.NewSelect(names, nil)
+		s := w.newSelect(names, nil)
 		s.SetSelected(m.Supports[r.Index].Kind.String())
 		s.OnChanged = func(name string) {
 			k, _ := fem.ParseSupportKind(name)
@@ -321,7 +321,7 @@ func (c *controls) choices(r canvas.Ref) []fyne.CanvasObject {
 		}
 		return []fyne.CanvasObject{container.NewBorder(nil, nil, widget.NewLabel("Kind"), nil, s)}
 	case canvas.DistributedLoad, canvas.LoadVertex:
-		s := widget.NewSelect([]string{"transverse (+ up)", "axial (+ along x)"}, nil)
+		s := w.newSelect([]string{"transverse (+ up)", "axial (+ along x)"}, nil)
 		dir := m.DistributedLoad[r.Index].Direction
 		if dir == fem.Axial {
 			s.SetSelected("axial (+ along x)")
