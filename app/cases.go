@@ -11,6 +11,7 @@ import (
 	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/widget"
 
+	"stave/canvas/report"
 	"stave/fem"
 	"stave/fem/analysis"
 	"stave/fem/moving"
@@ -589,7 +590,7 @@ func (t *combinationTable) addRow(cb fem.Combination) {
 		e := t.newEntry()
 		for _, f := range cb.Factors {
 			if f.Case == k {
-				e.SetText(strconv.FormatFloat(f.Factor, 'g', -1, 64))
+				e.SetText(factorText(f.Factor))
 			}
 		}
 		r.factors = append(r.factors, e)
@@ -599,13 +600,19 @@ func (t *combinationTable) addRow(cb fem.Combination) {
 		e := t.newEntry()
 		for _, f := range cb.Trains {
 			if f.Train == i {
-				e.SetText(strconv.FormatFloat(f.Factor, 'g', -1, 64))
+				e.SetText(factorText(f.Factor))
 			}
 		}
 		r.trains = append(r.trains, e)
 		t.grid.Add(e)
 	}
 	t.rows = append(t.rows, r)
+}
+
+// factorText is factor f as a cell of the table shows it, a zero of
+// either sign as 0 (report.PlainZero).
+func factorText(f float64) string {
+	return strconv.FormatFloat(report.PlainZero(f), 'g', -1, 64)
 }
 
 // addTemplates adds two typical rows over every case: a strength row
@@ -642,7 +649,7 @@ func (t *combinationTable) combinations() ([]fem.Combination, error) {
 			if f, err = strconv.ParseFloat(s, 64); err != nil {
 				return 0, false, fmt.Errorf("row %d, %s: %q is not a factor; enter a number such as 1.35, or leave the cell empty", i+1, column, s)
 			}
-			return f, true, nil
+			return report.PlainZero(f), true, nil
 		}
 		for k, e := range r.factors {
 			f, ok, err := factor(e, t.cases[k])
