@@ -495,7 +495,9 @@ func (w *Window) newCombinationsDialog() *combinationsDialog {
 	note.Wrapping = fyne.TextWrapWord
 	// The rows keep their own height; new ones come into sight.
 	cd.scroll = container.NewScroll(container.NewVBox(t.grid))
+	followFocus(cd.scroll)
 	added := func() {
+		followFocus(cd.scroll)
 		cd.scroll.Refresh()
 		cd.scroll.ScrollToBottom()
 	}

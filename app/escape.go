@@ -55,7 +55,14 @@ func (w *Window) escape() {
 // Escape in a field of a dialog did nothing.
 type escEntry struct {
 	widget.Entry
+	focusHook
 	OnEscape func()
+}
+
+// FocusGained is part of fyne.Focusable.
+func (e *escEntry) FocusGained() {
+	e.Entry.FocusGained()
+	e.focused()
 }
 
 // newEscEntry is an empty single-line escEntry.
@@ -86,7 +93,14 @@ func (e *escEntry) TypedKey(k *fyne.KeyEvent) {
 // PopUpMenu.TypedKey), so that a second Escape closes the dialog.
 type escSelect struct {
 	widget.Select
+	focusHook
 	OnEscape func()
+}
+
+// FocusGained is part of fyne.Focusable.
+func (s *escSelect) FocusGained() {
+	s.Select.FocusGained()
+	s.focused()
 }
 
 // newEscSelect is an escSelect of options calling changed on a change,
@@ -149,7 +163,14 @@ func (t *escTable) TypedKey(k *fyne.KeyEvent) {
 // Space ticks it or clears it.
 type escCheck struct {
 	widget.Check
+	focusHook
 	OnEscape func()
+}
+
+// FocusGained is part of fyne.Focusable.
+func (c *escCheck) FocusGained() {
+	c.Check.FocusGained()
+	c.focused()
 }
 
 // newEscCheck is an escCheck reading label, calling changed on a change,

@@ -9,6 +9,7 @@ import (
 
 	"fyne.io/fyne/v2"
 	fynecanvas "fyne.io/fyne/v2/canvas"
+	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/test"
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
@@ -366,56 +367,56 @@ func TestEnterOpensASelectsList(t *testing.T) {
 }
 
 // Escape on a select, a table or an entry of the panels, where Tab puts
-// it, gives the focus back to the drawing, as Escape in the properties'
-// numbers did already (Window.escape), and leaves the selection and the
-// member as they were; a second Escape, on the drawing, selects nothing
-// (keyNothing). The selects, the readout's table and the snapping step
-// and element count took the key and ignored it, so the focus stayed
-// where it was.
+// it, and on a switch of the properties, gives the focus back to the
+// drawing, as Escape in the properties' numbers did already
+// (Window.escape), and leaves the selection and the member as they were;
+// a second Escape, on the drawing, selects nothing (keyNothing). The
+// selects, the readout's table, the snapping step, the element count, a
+// segment's material name and the properties' switches took the key and
+// ignored it, so the focus stayed where it was. With a support and with a
+// segment selected, whose properties differ.
 func TestEscapeInThePanelsGoesToTheDrawing(t *testing.T) {
-	w, _ := openTestdata(t, "two_span_cases.json", laptop)
-	c := w.win.Canvas()
-	selected := canvas.Ref{Kind: canvas.Support, Index: 0}
-	w.selectItem(selected)
-	kinds := map[string]int{}
-	for _, f := range tabOrder(c) {
-		o := f.(fyne.CanvasObject)
-		var kind string
-		switch {
-		case selectIn(o) != nil:
-			kind = "select"
-		case isTable(o):
-			kind = "table"
-		default:
-			if _, ok := o.(*escEntry); ok {
+	for _, selected := range []canvas.Ref{{Kind: canvas.Support, Index: 0}, {Kind: canvas.Segment, Index: 0}} {
+		w, _ := openTestdata(t, "two_span_cases.json", laptop)
+		c := w.win.Canvas()
+		w.selectItem(selected)
+		kinds := map[string]int{}
+		for _, f := range tabOrder(c) {
+			o := f.(fyne.CanvasObject)
+			var kind string
+			switch o.(type) {
+			case *escSelect, *widget.Select:
+				kind = "select"
+			case *escTable, *widget.Table:
+				kind = "table"
+			case *escEntry, *widget.Entry:
 				kind = "entry"
-			} else if _, ok := o.(*widget.Entry); ok {
-				kind = "entry"
+			case *escCheck:
+				kind = "switch"
+			default:
+				continue
+			}
+			kinds[kind]++
+			tabTo(t, c, f)
+			before := cloneProject(w.project)
+			f.TypedKey(&fyne.KeyEvent{Name: fyne.KeyEscape})
+			if any(c.Focused()) != any(w.draw) {
+				t.Errorf("%s selected: Escape on the %s %s left the focus on %s, want the drawing", selected.Kind, kind, nameOf(o), focusName(c))
+			}
+			if w.selected != selected || !reflect.DeepEqual(w.project, before) || c.Overlays().Top() != nil {
+				t.Errorf("%s selected: Escape on the %s %s changed the selection to %+v, or the member, or opened a dialog", selected.Kind, kind, nameOf(o), w.selected)
+				w.selectItem(selected)
 			}
 		}
-		if kind == "" {
-			continue
+		for _, kind := range []string{"select", "table", "entry"} {
+			if kinds[kind] == 0 {
+				t.Errorf("%s selected: Tab reaches no %s in the panels", selected.Kind, kind)
+			}
 		}
-		kinds[kind]++
-		tabTo(t, c, f)
-		before := cloneProject(w.project)
-		f.TypedKey(&fyne.KeyEvent{Name: fyne.KeyEscape})
-		if any(c.Focused()) != any(w.draw) {
-			t.Errorf("Escape on the %s %s left the focus on %s, want the drawing", kind, nameOf(o), focusName(c))
+		typeToFocused(t, w, fyne.KeyEscape)
+		if w.selected != canvasNone {
+			t.Errorf("%s selected: a second Escape, on the drawing, left %+v selected, want nothing", selected.Kind, w.selected)
 		}
-		if w.selected != selected || !reflect.DeepEqual(w.project, before) || c.Overlays().Top() != nil {
-			t.Errorf("Escape on the %s %s changed the selection to %+v, or the member, or opened a dialog", kind, nameOf(o), w.selected)
-			w.selectItem(selected)
-		}
-	}
-	for _, kind := range []string{"select", "table", "entry"} {
-		if kinds[kind] == 0 {
-			t.Errorf("Tab reaches no %s in the panels", kind)
-		}
-	}
-	typeToFocused(t, w, fyne.KeyEscape)
-	if w.selected != canvasNone {
-		t.Errorf("a second Escape, on the drawing, left %+v selected, want nothing", w.selected)
 	}
 }
 
@@ -472,6 +473,80 @@ func TestEscapeClosesTheMovingLoadsWindow(t *testing.T) {
 		}
 		if !reflect.DeepEqual(w.project, before) {
 			t.Errorf("the moving-loads window: Escape %s changed the project", what)
+		}
+	}
+}
+
+// inSight reports whether o, in the content of s, lies whole in the view of s.
+func inSight(s *container.Scroll, o fyne.CanvasObject) bool {
+	d := fyne.CurrentApp().Driver()
+	at := d.AbsolutePositionForObject(o).Subtract(d.AbsolutePositionForObject(s))
+	return at.Y >= -0.5 && at.Y+o.Size().Height <= s.Size().Height+0.5
+}
+
+// scrollOf is the first scroll among the objects under root.
+func scrollOf(t *testing.T, root fyne.CanvasObject) *container.Scroll {
+	t.Helper()
+	for _, o := range test.LaidOutObjects(root) {
+		if s, ok := o.(*container.Scroll); ok {
+			return s
+		}
+	}
+	t.Fatal("no scroll")
+	return nil
+}
+
+// Tab and Shift+Tab bring the widget they put the focus on into sight in
+// a pane that scrolls: on a laptop's screen the properties of a support
+// show its kind and three of its four numbers, and the moving-loads form
+// stops above its Apply, and Tab put the focus (and what was typed) out of
+// sight, as a screenshot of the window at 1280 × 720 showed.
+func TestTabScrollsTheFocusIntoSight(t *testing.T) {
+	for _, p := range []struct {
+		name string
+		open func(t *testing.T) (fyne.Canvas, *container.Scroll)
+	}{
+		{"the properties of a support", func(t *testing.T) (fyne.Canvas, *container.Scroll) {
+			w, _ := openTestdata(t, "two_span_cases.json", laptop)
+			w.selectItem(canvas.Ref{Kind: canvas.Support, Index: 0})
+			return w.win.Canvas(), scrollOf(t, w.ui.properties)
+		}},
+		{"the moving-loads form", func(t *testing.T) (fyne.Canvas, *container.Scroll) {
+			_, _, mw := runwayWindow(t)
+			mw.win.Resize(laptop)
+			return mw.win.Canvas(), mw.formScroll
+		}},
+	} {
+		c, s := p.open(t)
+		var inside []fyne.Focusable
+		for _, f := range tabOrder(c) {
+			if slices.Contains(test.LaidOutObjects(s.Content), f.(fyne.CanvasObject)) {
+				inside = append(inside, f)
+			}
+		}
+		hidden := 0
+		for _, f := range inside {
+			if !inSight(s, f.(fyne.CanvasObject)) {
+				hidden++
+			}
+		}
+		if hidden == 0 {
+			t.Fatalf("%s: every one of its %d widgets is in sight already; the test needs one out of sight", p.name, len(inside))
+		}
+		c.Focus(inside[0])
+		for i, f := range inside {
+			if i > 0 {
+				c.FocusNext()
+			}
+			if c.Focused() != f || !inSight(s, f.(fyne.CanvasObject)) {
+				t.Errorf("%s: Tab to its %s left it out of sight", p.name, nameOf(f.(fyne.CanvasObject)))
+			}
+		}
+		for i := len(inside) - 2; i >= 0; i-- {
+			c.FocusPrevious()
+			if f := inside[i]; c.Focused() != f || !inSight(s, f.(fyne.CanvasObject)) {
+				t.Errorf("%s: Shift+Tab back to its %s left it out of sight", p.name, nameOf(f.(fyne.CanvasObject)))
+			}
 		}
 	}
 }

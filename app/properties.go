@@ -228,8 +228,9 @@ func (c *controls) showProperties() {
 	}
 	message.Hide() // until there is something to say
 	foot := container.NewVBox(message, newFlow(buttons...))
-	c.properties.Objects = []fyne.CanvasObject{container.NewBorder(heading("Properties — "+title), foot, nil, nil,
-		container.NewVScroll(container.NewVBox(objects...)))}
+	scroll := container.NewVScroll(container.NewVBox(objects...))
+	followFocus(scroll)
+	c.properties.Objects = []fyne.CanvasObject{container.NewBorder(heading("Properties — "+title), foot, nil, nil, scroll)}
 	c.properties.Refresh()
 }
 
@@ -273,7 +274,8 @@ func (w *Window) typingHint(fields []field) string {
 // a label a file can hold (storage's rules).
 func (c *controls) materialName(i int, message *widget.Label) fyne.CanvasObject {
 	w := c.w
-	name := widget.NewEntry()
+	name := newEscEntry()
+	name.OnEscape = w.escape
 	name.SetText(w.project.Model.Segments[i].Material.Name)
 	name.OnSubmitted = func(s string) {
 		p := cloneProject(w.project)
@@ -359,7 +361,8 @@ func (c *controls) choices(r canvas.Ref) []fyne.CanvasObject {
 // after what when it changes.
 func (c *controls) toggle(label string, on bool, what string, at func(m *fem.Model) *bool) fyne.CanvasObject {
 	w := c.w
-	box := widget.NewCheck(label, nil)
+	box := newEscCheck(label, nil)
+	box.OnEscape = w.escape
 	box.SetChecked(on)
 	box.OnChanged = func(on bool) {
 		if on == *at(&w.project.Model) {

@@ -265,6 +265,7 @@ func (mw *movingWindow) build() {
 	below := container.NewVBox(mw.readout, hint)
 	center := container.New(layout.NewBorderLayout(top, below, nil, nil), mw.pic, below, top)
 	mw.formScroll = container.NewVScroll(left)
+	followFocus(mw.formScroll)
 	split := container.NewHSplit(mw.formScroll, center)
 	split.SetOffset(0.27)
 	mw.win.SetContent(container.NewBorder(nil, container.NewVBox(widget.NewSeparator(), mw.status, warning), nil, nil, split))
@@ -475,11 +476,13 @@ func (mw *movingWindow) removeAxleRow(row *fyne.Container) {
 	mw.rowsChanged()
 }
 
-// rowsChanged lays the form out again for the axle table's new rows.
+// rowsChanged lays the form out again for the axle table's new rows,
+// which the form's scroll then brings into sight as they gain the focus.
 func (mw *movingWindow) rowsChanged() {
 	if mw.formScroll == nil {
 		return // still being built
 	}
+	followFocus(mw.formScroll)
 	mw.formScroll.Content.Refresh()
 	mw.formScroll.Refresh()
 }
