@@ -125,7 +125,7 @@ type casesPanel struct {
 	w                                         *Window
 	box                                       *fyne.Container
 	caseSelect, showSelect                    *escSelect
-	selfWeight, settlements, gradient, bySpan *widget.Check
+	selfWeight, settlements, gradient, bySpan *escCheck
 	showing                                   []analysis.Show // the choices of showSelect
 	// bar holds the choices above the drawing: laid out again when their
 	// options change, as each is as wide as its widest option.
@@ -146,9 +146,9 @@ func newCasesPanel(w *Window) *casesPanel {
 			w.setShow(c.showing[i])
 		}
 	})
-	flag := func(label string, set func(lc *fem.LoadCase, on bool)) *widget.Check {
-		var ch *widget.Check
-		ch = widget.NewCheck(label, func(on bool) {
+	flag := func(label string, set func(lc *fem.LoadCase, on bool)) *escCheck {
+		var ch *escCheck
+		ch = w.newCheck(label, func(on bool) {
 			if !c.updating {
 				w.setCaseFlag(label, on, set)
 			}
@@ -162,8 +162,8 @@ func newCasesPanel(w *Window) *casesPanel {
 	// The choice of the case edited and the combinations are above the
 	// drawing (actionBar), beside what it shows.
 	c.box = container.NewVBox(heading("Load cases"),
-		container.NewGridWithColumns(2, widget.NewButton("Add…", w.addCase),
-			widget.NewButton("Rename…", w.renameCase), widget.NewButton("Delete", w.deleteCase)),
+		container.NewGridWithColumns(2, w.newButton("Add…", nil, w.addCase),
+			w.newButton("Rename…", nil, w.renameCase), w.newButton("Delete", nil, w.deleteCase)),
 		c.selfWeight, c.settlements, c.gradient, c.bySpan)
 	return c
 }
@@ -182,7 +182,7 @@ func (c *casesPanel) refresh() {
 	c.caseSelect.Options = names
 	c.caseSelect.SetSelectedIndex(min(w.editCase, len(names)-1))
 	hasCases := len(m.Cases) > 0
-	for _, ch := range []*widget.Check{c.selfWeight, c.settlements, c.gradient, c.bySpan} {
+	for _, ch := range []*escCheck{c.selfWeight, c.settlements, c.gradient, c.bySpan} {
 		if hasCases {
 			ch.Enable()
 		} else {

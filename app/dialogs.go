@@ -20,14 +20,14 @@ import (
 // onEscape closes that window (movingWindow.newButton).
 type dialogButton struct {
 	ringButton
-	onEscape func()
 }
 
 // newDialogButton is a button of a dialog of w reading label that runs
 // tapped, with a ring round it in focus (ringButton).
 func (w *Window) newDialogButton(label string, tapped func()) *dialogButton {
-	b := &dialogButton{onEscape: w.escape}
+	b := &dialogButton{}
 	b.setUp(label, tapped)
+	b.onEscape = w.escape
 	b.ExtendBaseWidget(b)
 	return b
 }

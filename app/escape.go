@@ -189,3 +189,37 @@ func (c *escCheck) TypedKey(k *fyne.KeyEvent) {
 	}
 	c.Check.TypedKey(k)
 }
+
+// newCheck is a check box of the window's panels on which Escape gives the
+// focus back to the drawing (escape), as on the panels' fields.
+func (w *Window) newCheck(label string, changed func(bool)) *escCheck {
+	c := newEscCheck(label, changed)
+	c.OnEscape = w.escape
+	return c
+}
+
+// escSlider is a slider that hands Escape to OnEscape, as escEntry does in
+// a field: fyne's slider ignores Escape. Its other keys are fyne's: the
+// arrows move it.
+type escSlider struct {
+	widget.Slider
+	OnEscape func()
+}
+
+// newSlider is a slider of the window's panels from lowest to highest, as
+// widget.NewSlider makes one, on which Escape gives the focus back to the
+// drawing (escape).
+func (w *Window) newSlider(lowest, highest float64) *escSlider {
+	s := &escSlider{Slider: widget.Slider{Min: lowest, Max: highest, Step: 1, Orientation: widget.Horizontal}, OnEscape: w.escape}
+	s.ExtendBaseWidget(s)
+	return s
+}
+
+// TypedKey is part of fyne.Focusable.
+func (s *escSlider) TypedKey(k *fyne.KeyEvent) {
+	if k.Name == fyne.KeyEscape && s.OnEscape != nil {
+		s.OnEscape()
+		return
+	}
+	s.Slider.TypedKey(k)
+}

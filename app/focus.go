@@ -39,6 +39,10 @@ type ringButton struct {
 	widget.Button
 	focusHook
 	ring *fynecanvas.Rectangle
+	// onEscape, when set, takes Escape, which fyne's button ignores: a
+	// button of the panels hands it to the window's escape, as the
+	// panels' fields do.
+	onEscape func()
 }
 
 func newRingButton(label string, tapped func()) *ringButton {
@@ -56,6 +60,24 @@ func (b *ringButton) setUp(label string, tapped func()) {
 	b.Text, b.OnTapped = label, tapped
 	b.ring.StrokeWidth = 2
 	b.ring.CornerRadius = theme.InputRadiusSize()
+}
+
+// TypedKey is part of fyne.Focusable.
+func (b *ringButton) TypedKey(k *fyne.KeyEvent) {
+	if k.Name == fyne.KeyEscape && b.onEscape != nil {
+		b.onEscape()
+		return
+	}
+	b.Button.TypedKey(k)
+}
+
+// newButton is a button of the window's panels reading label, with icon
+// (none when nil), that runs tapped; Escape on it gives the focus back to
+// the drawing (escape), as on the panels' fields.
+func (w *Window) newButton(label string, icon fyne.Resource, tapped func()) *ringButton {
+	b := newRingButton(label, tapped)
+	b.Icon, b.onEscape = icon, w.escape
+	return b
 }
 
 // CreateRenderer is part of fyne.Widget: the button's own, with the ring

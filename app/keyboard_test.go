@@ -366,15 +366,14 @@ func TestEnterOpensASelectsList(t *testing.T) {
 	}
 }
 
-// Escape on a select, a table or an entry of the panels, where Tab puts
-// it, and on a switch of the properties, gives the focus back to the
-// drawing, as Escape in the properties' numbers did already
+// Escape on any widget of the panels where Tab puts it (a select, a
+// table, a field, a switch, the slider, a button) gives the focus back to
+// the drawing, as Escape in the properties' numbers did already
 // (Window.escape), and leaves the selection and the member as they were;
-// a second Escape, on the drawing, selects nothing (keyNothing). The
-// selects, the readout's table, the snapping step, the element count, a
-// segment's material name and the properties' switches took the key and
-// ignored it, so the focus stayed where it was. With a support and with a
-// segment selected, whose properties differ.
+// a second Escape, on the drawing, selects nothing (keyNothing). Every one
+// of them but those numbers took the key and ignored it, so the focus
+// stayed where it was. With a support and with a segment selected, whose
+// properties differ.
 func TestEscapeInThePanelsGoesToTheDrawing(t *testing.T) {
 	for _, selected := range []canvas.Ref{{Kind: canvas.Support, Index: 0}, {Kind: canvas.Segment, Index: 0}} {
 		w, _ := openTestdata(t, "two_span_cases.json", laptop)
@@ -385,30 +384,34 @@ func TestEscapeInThePanelsGoesToTheDrawing(t *testing.T) {
 			o := f.(fyne.CanvasObject)
 			var kind string
 			switch o.(type) {
+			case *drawing:
+				continue
 			case *escSelect, *widget.Select:
 				kind = "select"
 			case *escTable, *widget.Table:
 				kind = "table"
 			case *escEntry, *widget.Entry:
 				kind = "entry"
-			case *escCheck:
+			case *escCheck, *widget.Check:
 				kind = "switch"
+			case *escSlider, *widget.Slider:
+				kind = "slider"
 			default:
-				continue
+				kind = "button"
 			}
 			kinds[kind]++
 			tabTo(t, c, f)
 			before := cloneProject(w.project)
 			f.TypedKey(&fyne.KeyEvent{Name: fyne.KeyEscape})
 			if any(c.Focused()) != any(w.draw) {
-				t.Errorf("%s selected: Escape on the %s %s left the focus on %s, want the drawing", selected.Kind, kind, nameOf(o), focusName(c))
+				t.Errorf("%s selected: Escape on the %s left the focus on %s, want the drawing", selected.Kind, nameOf(o), focusName(c))
 			}
 			if w.selected != selected || !reflect.DeepEqual(w.project, before) || c.Overlays().Top() != nil {
-				t.Errorf("%s selected: Escape on the %s %s changed the selection to %+v, or the member, or opened a dialog", selected.Kind, kind, nameOf(o), w.selected)
+				t.Errorf("%s selected: Escape on the %s changed the selection to %+v, or the member, or opened a dialog", selected.Kind, nameOf(o), w.selected)
 				w.selectItem(selected)
 			}
 		}
-		for _, kind := range []string{"select", "table", "entry"} {
+		for _, kind := range []string{"select", "table", "entry", "switch", "slider", "button"} {
 			if kinds[kind] == 0 {
 				t.Errorf("%s selected: Tab reaches no %s in the panels", selected.Kind, kind)
 			}

@@ -89,6 +89,8 @@ func fyneTypeName(o fyne.CanvasObject) string {
 		return "picture"
 	case *widget.Table, *escTable:
 		return "table"
+	case *widget.Slider, *escSlider:
+		return "slider"
 	case *widget.List:
 		return "list"
 	}
@@ -123,7 +125,7 @@ func TestCaseButtonsHaveWords(t *testing.T) {
 	w, _ := openTestdata(t, "two_span_cases.json", laptop)
 	n := 0
 	for _, o := range test.LaidOutObjects(w.ui.cases.box) {
-		if b, ok := o.(*widget.Button); ok {
+		if b := buttonIn(o); b != nil {
 			n++
 			if b.Text == "" {
 				t.Errorf("a button of the load cases shows only an icon")

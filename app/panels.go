@@ -53,12 +53,12 @@ type controls struct {
 	checks       *checksList
 	elements     *escEntry
 	elementsUsed *widget.Label // the element count actually solved
-	layerChecks  map[*bool]*widget.Check
+	layerChecks  map[*bool]*escCheck
 	order        *escSelect
 	orders       []barOrder
 	unitSelect   *escSelect
 	grid         *escEntry
-	magnify      *widget.Slider
+	magnify      *escSlider
 	magnifyText  *widget.Label
 }
 
@@ -69,13 +69,13 @@ type controls struct {
 // mouse and the checks, each in a pane that scrolls; the status and the
 // caution at the foot.
 func (w *Window) build() {
-	c := &controls{w: w, toolButtons: map[tool]*ringButton{}, layerChecks: map[*bool]*widget.Check{}}
+	c := &controls{w: w, toolButtons: map[tool]*ringButton{}, layerChecks: map[*bool]*escCheck{}}
 	w.ui = c
 	w.status = newStatusLine(w)
 
 	strip := container.NewVBox(heading("Tools"))
 	for _, t := range tools {
-		b := newRingButton(fmt.Sprintf("%s  (%c)", t.label, t.key-'a'+'A'), func() { w.setTool(t.tool) })
+		b := w.newButton(fmt.Sprintf("%s  (%c)", t.label, t.key-'a'+'A'), nil, func() { w.setTool(t.tool) })
 		b.Alignment = widget.ButtonAlignLeading
 		c.toolButtons[t.tool] = b
 		strip.Add(b)
@@ -151,17 +151,17 @@ func (c *controls) actionBar() fyne.CanvasObject {
 	})
 	c.unitSelect.SetSelected(w.units.Name + " units")
 	c.cases.bar = newFlow(
-		widget.NewButtonWithIcon("Add…", theme.ContentAddIcon(), w.showAddForm),
-		widget.NewButtonWithIcon("Undo", theme.ContentUndoIcon(), w.undo),
-		widget.NewButtonWithIcon("Redo", theme.ContentRedoIcon(), w.redo),
-		widget.NewButtonWithIcon("Delete", theme.DeleteIcon(), w.deleteSelected),
-		widget.NewButtonWithIcon("Fit view", theme.ZoomFitIcon(), w.draw.fit),
+		w.newButton("Add…", theme.ContentAddIcon(), w.showAddForm),
+		w.newButton("Undo", theme.ContentUndoIcon(), w.undo),
+		w.newButton("Redo", theme.ContentRedoIcon(), w.redo),
+		w.newButton("Delete", theme.DeleteIcon(), w.deleteSelected),
+		w.newButton("Fit view", theme.ZoomFitIcon(), w.draw.fit),
 		container.NewBorder(nil, nil, widget.NewLabel("Snap"), nil, fixedWidth(110, c.grid)),
 		c.unitSelect,
 		// The choices of the load cases: shown, edited, combined.
 		container.NewHBox(widget.NewLabel("Show"), fitOptions(c.cases.showSelect, 260)),
 		container.NewHBox(widget.NewLabel("Editing"), fitOptions(c.cases.caseSelect, 200)),
-		widget.NewButton("Combinations…", w.showCombinations))
+		w.newButton("Combinations…", nil, w.showCombinations))
 	return c.cases.bar
 }
 
@@ -188,8 +188,8 @@ func (c *controls) meshBar() []fyne.CanvasObject {
 	c.elements = newEscEntry()
 	c.elements.OnEscape = w.escape
 	c.elements.OnSubmitted = func(s string) { w.setElements(s) }
-	finer := widget.NewButton("Double", func() { w.scaleElements(2) })
-	coarser := widget.NewButton("Halve", func() { w.scaleElements(0.5) })
+	finer := w.newButton("Double", nil, func() { w.scaleElements(2) })
+	coarser := w.newButton("Halve", nil, func() { w.scaleElements(0.5) })
 	orders, beam := barOrders()
 	c.orders = orders
 	names := make([]string, len(orders))
@@ -238,7 +238,7 @@ func (l widthLayout) Layout(objects []fyne.CanvasObject, size fyne.Size) {
 func (c *controls) layerBar() []fyne.CanvasObject {
 	w := c.w
 	toggle := func(label string, on *bool) fyne.CanvasObject {
-		ch := widget.NewCheck(label, func(v bool) {
+		ch := w.newCheck(label, func(v bool) {
 			*on = v
 			w.draw.Refresh()
 			w.updateTitle()
@@ -248,14 +248,14 @@ func (c *controls) layerBar() []fyne.CanvasObject {
 		return ch
 	}
 	o := &w.project.View.Overlays
-	c.magnify = widget.NewSlider(0, 4) // log10 of the magnification
+	c.magnify = w.newSlider(0, 4) // log10 of the magnification
 	c.magnify.Step = 0.05
 	c.magnify.OnChanged = func(v float64) {
 		w.project.View.Magnification = math.Round(math.Pow(10, v))
 		c.showMagnification()
 		w.draw.Refresh()
 	}
-	auto := widget.NewButton("auto", func() {
+	auto := w.newButton("auto", nil, func() {
 		w.project.View.Magnification = 0
 		c.showMagnification()
 		w.draw.Refresh()

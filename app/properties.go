@@ -219,12 +219,12 @@ func (c *controls) showProperties() {
 	// The buttons stay in view below the fields, which scroll.
 	var buttons []fyne.CanvasObject
 	if len(fields) > 0 {
-		apply := newRingButton("Apply", applyAll)
+		apply := w.newButton("Apply", nil, applyAll)
 		apply.Importance = widget.HighImportance
 		buttons = append(buttons, apply)
 	}
 	if r.Kind != canvas.None {
-		buttons = append(buttons, widget.NewButtonWithIcon("Delete "+describe(r), theme.DeleteIcon(), w.deleteSelected))
+		buttons = append(buttons, w.newButton("Delete "+describe(r), theme.DeleteIcon(), w.deleteSelected))
 	}
 	message.Hide() // until there is something to say
 	foot := container.NewVBox(message, newFlow(buttons...))
@@ -361,8 +361,7 @@ func (c *controls) choices(r canvas.Ref) []fyne.CanvasObject {
 // after what when it changes.
 func (c *controls) toggle(label string, on bool, what string, at func(m *fem.Model) *bool) fyne.CanvasObject {
 	w := c.w
-	box := newEscCheck(label, nil)
-	box.OnEscape = w.escape
+	box := w.newCheck(label, nil)
 	box.SetChecked(on)
 	box.OnChanged = func(on bool) {
 		if on == *at(&w.project.Model) {
