@@ -145,7 +145,8 @@ func (h *focusHook) focused() {
 // a field out of sight, where what is typed goes unseen: fyne's scroll
 // does not follow the focus, and at 1280 × 720 the properties panel shows
 // four fields and the moving-loads form stops above its Apply. Call it
-// again when the content gains widgets.
+// again when the content gains widgets. It looks into containers (and
+// theme overrides), not into other widgets or an inner scroll.
 func followFocus(s *container.Scroll) {
 	var walk func(o fyne.CanvasObject)
 	walk = func(o fyne.CanvasObject) {
@@ -158,8 +159,6 @@ func followFocus(s *container.Scroll) {
 			}
 		case *container.ThemeOverride:
 			walk(v.Content)
-		case *container.Scroll:
-			// an inner scroll follows the focus itself, if at all
 		}
 	}
 	walk(s.Content)
