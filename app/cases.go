@@ -11,6 +11,7 @@ import (
 	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/widget"
 
+	"stave/canvas/report"
 	"stave/fem"
 	"stave/fem/analysis"
 	"stave/fem/moving"
@@ -123,8 +124,8 @@ func (r *readout) showEnvelope(w *Window, x float64) bool {
 type casesPanel struct {
 	w                                         *Window
 	box                                       *fyne.Container
-	caseSelect, showSelect                    *widget.Select
-	selfWeight, settlements, gradient, bySpan *widget.Check
+	caseSelect, showSelect                    *escSelect
+	selfWeight, settlements, gradient, bySpan *escCheck
 	showing                                   []analysis.Show // the choices of showSelect
 	// bar holds the choices above the drawing: laid out again when their
 	// options change, as each is as wide as its widest option.
@@ -135,19 +136,19 @@ type casesPanel struct {
 // newCasesPanel builds the panel; refresh fills it.
 func newCasesPanel(w *Window) *casesPanel {
 	c := &casesPanel{w: w}
-	c.caseSelect = widget.NewSelect(nil, func(s string) {
+	c.caseSelect = w.newSelect(nil, func(s string) {
 		if !c.updating {
 			w.chooseCase(c.caseSelect.SelectedIndex())
 		}
 	})
-	c.showSelect = widget.NewSelect(nil, func(string) {
+	c.showSelect = w.newSelect(nil, func(string) {
 		if i := c.showSelect.SelectedIndex(); !c.updating && i >= 0 && i < len(c.showing) {
 			w.setShow(c.showing[i])
 		}
 	})
-	flag := func(label string, set func(lc *fem.LoadCase, on bool)) *widget.Check {
-		var ch *widget.Check
-		ch = widget.NewCheck(label, func(on bool) {
+	flag := func(label string, set func(lc *fem.LoadCase, on bool)) *escCheck {
+		var ch *escCheck
+		ch = w.newCheck(label, func(on bool) {
 			if !c.updating {
 				w.setCaseFlag(label, on, set)
 			}
@@ -161,8 +162,8 @@ func newCasesPanel(w *Window) *casesPanel {
 	// The choice of the case edited and the combinations are above the
 	// drawing (actionBar), beside what it shows.
 	c.box = container.NewVBox(heading("Load cases"),
-		container.NewGridWithColumns(2, widget.NewButton("Add…", w.addCase),
-			widget.NewButton("Rename…", w.renameCase), widget.NewButton("Delete", w.deleteCase)),
+		container.NewGridWithColumns(2, w.newButton("Add…", nil, w.addCase),
+			w.newButton("Rename…", nil, w.renameCase), w.newButton("Delete", nil, w.deleteCase)),
 		c.selfWeight, c.settlements, c.gradient, c.bySpan)
 	return c
 }
@@ -181,7 +182,7 @@ func (c *casesPanel) refresh() {
 	c.caseSelect.Options = names
 	c.caseSelect.SetSelectedIndex(min(w.editCase, len(names)-1))
 	hasCases := len(m.Cases) > 0
-	for _, ch := range []*widget.Check{c.selfWeight, c.settlements, c.gradient, c.bySpan} {
+	for _, ch := range []*escCheck{c.selfWeight, c.settlements, c.gradient, c.bySpan} {
 		if hasCases {
 			ch.Enable()
 		} else {
@@ -494,7 +495,9 @@ func (w *Window) newCombinationsDialog() *combinationsDialog {
 	note.Wrapping = fyne.TextWrapWord
 	// The rows keep their own height; new ones come into sight.
 	cd.scroll = container.NewScroll(container.NewVBox(t.grid))
+	followFocus(cd.scroll)
 	added := func() {
+		followFocus(cd.scroll)
 		cd.scroll.Refresh()
 		cd.scroll.ScrollToBottom()
 	}
@@ -589,7 +592,7 @@ func (t *combinationTable) addRow(cb fem.Combination) {
 		e := t.newEntry()
 		for _, f := range cb.Factors {
 			if f.Case == k {
-				e.SetText(strconv.FormatFloat(f.Factor, 'g', -1, 64))
+				e.SetText(factorText(f.Factor))
 			}
 		}
 		r.factors = append(r.factors, e)
@@ -599,13 +602,19 @@ func (t *combinationTable) addRow(cb fem.Combination) {
 		e := t.newEntry()
 		for _, f := range cb.Trains {
 			if f.Train == i {
-				e.SetText(strconv.FormatFloat(f.Factor, 'g', -1, 64))
+				e.SetText(factorText(f.Factor))
 			}
 		}
 		r.trains = append(r.trains, e)
 		t.grid.Add(e)
 	}
 	t.rows = append(t.rows, r)
+}
+
+// factorText is factor f as a cell of the table shows it, a zero of
+// either sign as 0 (report.PlainZero).
+func factorText(f float64) string {
+	return strconv.FormatFloat(report.PlainZero(f), 'g', -1, 64)
 }
 
 // addTemplates adds two typical rows over every case: a strength row
@@ -642,7 +651,7 @@ func (t *combinationTable) combinations() ([]fem.Combination, error) {
 			if f, err = strconv.ParseFloat(s, 64); err != nil {
 				return 0, false, fmt.Errorf("row %d, %s: %q is not a factor; enter a number such as 1.35, or leave the cell empty", i+1, column, s)
 			}
-			return f, true, nil
+			return report.PlainZero(f), true, nil
 		}
 		for k, e := range r.factors {
 			f, ok, err := factor(e, t.cases[k])

@@ -403,3 +403,36 @@ func TestDeletingATrainKeepsTheCombinationsTrains(t *testing.T) {
 		t.Errorf("after deleting the first train the cautions are %q, want %q", names, want)
 	}
 }
+
+// A factor of 0 typed with a sign ("-0") reads as 0, in a case's cell and
+// in a train's, and a zero factor of either sign (a file may hold "-0")
+// shows as 0: the table kept −0, which its cells and the reports then
+// wrote "-0", as if a load were taken away. IEEE 754 has a zero of either
+// sign, equal to each other (from memory).
+func TestCombinationFactorZeroHasNoSign(t *testing.T) {
+	negZero := math.Copysign(0, -1)
+	m := fem.Model{Cases: []fem.LoadCase{{Name: "permanent"}},
+		Combinations: []fem.Combination{{Name: "from a file", Kind: fem.Strength,
+			Factors: []fem.CaseFactor{{Case: 0, Factor: negZero}}, Trains: []fem.TrainFactor{{Train: 0, Factor: negZero}}}}}
+	trains := []moving.Train{{Name: "hoist", Axles: []moving.Axle{{Load: 1}}}}
+	tab := newCombinationTable(m, trains, nil)
+	if got := []string{tab.rows[0].factors[0].Text, tab.rows[0].trains[0].Text}; !slices.Equal(got, []string{"0", "0"}) {
+		t.Errorf("factors of −0 show as %q, want 0 and 0", got)
+	}
+	for _, typed := range []string{"-0", " -0.0 ", "-0e3", "-0.000"} {
+		tab.rows[0].factors[0].SetText(typed)
+		tab.rows[0].trains[0].SetText(typed)
+		combos, err := tab.combinations()
+		if err != nil {
+			t.Fatalf("%q typed: %v", typed, err)
+		}
+		for _, read := range []struct {
+			what string
+			f    float64
+		}{{"case", combos[0].Factors[0].Factor}, {"train", combos[0].Trains[0].Factor}} {
+			if read.f != 0 || math.Signbit(read.f) {
+				t.Errorf("%q typed as a %s's factor reads as %v, want 0 without a sign", typed, read.what, read.f)
+			}
+		}
+	}
+}

@@ -44,8 +44,8 @@ type wideSelect struct {
 }
 
 // fitOptions is s in a container as wide as its widest option, up to most px.
-func fitOptions(s *widget.Select, most float32) *fyne.Container {
-	return container.New(wideSelect{s, most}, s)
+func fitOptions(s *escSelect, most float32) *fyne.Container {
+	return container.New(wideSelect{&s.Select, most}, s)
 }
 
 func (l wideSelect) MinSize([]fyne.CanvasObject) fyne.Size {

@@ -16,17 +16,18 @@ import (
 // a dialog's button (after Tab) Escape did nothing; this one hands Escape
 // to onEscape (the window's escape, which closes the dialog on top as its
 // Cancel or Close button does), as escEntry does in a field. Enter presses
-// it, as Space does.
+// it, as Space does. The moving-loads window has such buttons too, whose
+// onEscape closes that window (movingWindow.newButton).
 type dialogButton struct {
 	ringButton
-	onEscape func()
 }
 
 // newDialogButton is a button of a dialog of w reading label that runs
 // tapped, with a ring round it in focus (ringButton).
 func (w *Window) newDialogButton(label string, tapped func()) *dialogButton {
-	b := &dialogButton{onEscape: w.escape}
+	b := &dialogButton{}
 	b.setUp(label, tapped)
+	b.onEscape = w.escape
 	b.ExtendBaseWidget(b)
 	return b
 }

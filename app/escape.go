@@ -55,7 +55,14 @@ func (w *Window) escape() {
 // Escape in a field of a dialog did nothing.
 type escEntry struct {
 	widget.Entry
+	focusHook
 	OnEscape func()
+}
+
+// FocusGained is part of fyne.Focusable.
+func (e *escEntry) FocusGained() {
+	e.Entry.FocusGained()
+	e.focused()
 }
 
 // newEscEntry is an empty single-line escEntry.
@@ -77,13 +84,23 @@ func (e *escEntry) TypedKey(k *fyne.KeyEvent) {
 // escSelect is a select that hands Escape to OnEscape (which the window
 // sets to its escape), as escEntry does in a field: fyne's select ignores
 // Escape, so with the focus on a select of a dialog Escape did nothing.
-// Its other keys are fyne's: Space, Up and Down open its list, Left and
-// Right step its choice. With the list open the list has the focus and
-// takes Escape itself, closing the list alone (fyne's
+// Enter (Return, or Enter on the keypad) opens its list, as Space does:
+// fyne's select ignored it, where a keyboard user expects a closed list
+// to open (common practice). Its other keys are fyne's: Space, Up and
+// Down open its list, Left and Right step its choice. With the list open
+// the list has the focus and takes the keys itself: Up and Down move in
+// it, Enter or Space chooses, Escape closes the list alone (fyne's
 // PopUpMenu.TypedKey), so that a second Escape closes the dialog.
 type escSelect struct {
 	widget.Select
+	focusHook
 	OnEscape func()
+}
+
+// FocusGained is part of fyne.Focusable.
+func (s *escSelect) FocusGained() {
+	s.Select.FocusGained()
+	s.focused()
 }
 
 // newEscSelect is an escSelect of options calling changed on a change,
@@ -97,11 +114,23 @@ func newEscSelect(options []string, changed func(string)) *escSelect {
 
 // TypedKey is part of fyne.Focusable.
 func (s *escSelect) TypedKey(k *fyne.KeyEvent) {
-	if k.Name == fyne.KeyEscape && s.OnEscape != nil {
+	switch {
+	case k.Name == fyne.KeyEscape && s.OnEscape != nil:
 		s.OnEscape()
-		return
+	case k.Name == fyne.KeyReturn || k.Name == fyne.KeyEnter:
+		s.Select.TypedKey(&fyne.KeyEvent{Name: fyne.KeySpace, Physical: k.Physical})
+	default:
+		s.Select.TypedKey(k)
 	}
-	s.Select.TypedKey(k)
+}
+
+// newSelect is a select of the window's panels (newEscSelect) on which
+// Escape does what it does in the panels' entries (escape): it gives the
+// focus back to the drawing, where it did nothing before.
+func (w *Window) newSelect(options []string, changed func(string)) *escSelect {
+	s := newEscSelect(options, changed)
+	s.OnEscape = w.escape
+	return s
 }
 
 // escTable is a table that hands Escape to OnEscape (which the window
@@ -127,4 +156,70 @@ func (t *escTable) TypedKey(k *fyne.KeyEvent) {
 		return
 	}
 	t.Table.TypedKey(k)
+}
+
+// escCheck is a check box that hands Escape to OnEscape, as escEntry does
+// in a field: fyne's check ignores Escape. Its other keys are fyne's:
+// Space ticks it or clears it.
+type escCheck struct {
+	widget.Check
+	focusHook
+	OnEscape func()
+}
+
+// FocusGained is part of fyne.Focusable.
+func (c *escCheck) FocusGained() {
+	c.Check.FocusGained()
+	c.focused()
+}
+
+// newEscCheck is an escCheck reading label, calling changed on a change,
+// as widget.NewCheck makes a check box.
+func newEscCheck(label string, changed func(bool)) *escCheck {
+	c := &escCheck{Check: widget.Check{Text: label, OnChanged: changed}}
+	c.ExtendBaseWidget(c)
+	return c
+}
+
+// TypedKey is part of fyne.Focusable.
+func (c *escCheck) TypedKey(k *fyne.KeyEvent) {
+	if k.Name == fyne.KeyEscape && c.OnEscape != nil {
+		c.OnEscape()
+		return
+	}
+	c.Check.TypedKey(k)
+}
+
+// newCheck is a check box of the window's panels on which Escape gives the
+// focus back to the drawing (escape), as on the panels' fields.
+func (w *Window) newCheck(label string, changed func(bool)) *escCheck {
+	c := newEscCheck(label, changed)
+	c.OnEscape = w.escape
+	return c
+}
+
+// escSlider is a slider that hands Escape to OnEscape, as escEntry does in
+// a field: fyne's slider ignores Escape. Its other keys are fyne's: the
+// arrows move it.
+type escSlider struct {
+	widget.Slider
+	OnEscape func()
+}
+
+// newSlider is a slider of the window's panels from lowest to highest, as
+// widget.NewSlider makes one, on which Escape gives the focus back to the
+// drawing (escape).
+func (w *Window) newSlider(lowest, highest float64) *escSlider {
+	s := &escSlider{Slider: widget.Slider{Min: lowest, Max: highest, Step: 1, Orientation: widget.Horizontal}, OnEscape: w.escape}
+	s.ExtendBaseWidget(s)
+	return s
+}
+
+// TypedKey is part of fyne.Focusable.
+func (s *escSlider) TypedKey(k *fyne.KeyEvent) {
+	if k.Name == fyne.KeyEscape && s.OnEscape != nil {
+		s.OnEscape()
+		return
+	}
+	s.Slider.TypedKey(k)
 }

@@ -573,8 +573,9 @@ func TestEscapeClosesAnOpenSelectListFirst(t *testing.T) {
 
 // The Escape-aware select and table keep fyne's other keys: Right and
 // Left step the select's choice, Down opens its list (fyne's
-// Select.TypedKey); Down moves the table's focused cell and Space selects
-// it (fyne's Table.TypedKey).
+// Select.TypedKey), as Enter does, and in the open list Down moves and
+// Enter chooses (fyne's PopUpMenu.TypedKey); Down moves the table's
+// focused cell and Space selects it (fyne's Table.TypedKey).
 func TestEscapeAwareWidgetsKeepTheirKeys(t *testing.T) {
 	w, _ := newTestWindow(t, demoProject(t))
 	c := w.win.Canvas()
@@ -602,6 +603,16 @@ func TestEscapeAwareWidgetsKeepTheirKeys(t *testing.T) {
 	s.TypedKey(&fyne.KeyEvent{Name: fyne.KeyDown})
 	if len(c.Overlays().List()) != overlays+1 {
 		t.Error("Down on a select opened no list")
+	}
+	c.Focused().TypedKey(&fyne.KeyEvent{Name: fyne.KeyEscape})
+	s.SetSelectedIndex(0)
+	c.Focus(s)
+	for _, key := range []fyne.KeyName{fyne.KeyReturn, fyne.KeyDown, fyne.KeyDown, fyne.KeyReturn} {
+		c.Focused().TypedKey(&fyne.KeyEvent{Name: key})
+	}
+	if s.Selected != "second" || len(c.Overlays().List()) != overlays {
+		t.Errorf("Enter, Down, Down, Enter on a select at %q chose %q with %d lists open, want %q and none",
+			options[0], s.Selected, len(c.Overlays().List())-overlays, "second")
 	}
 
 	var selected []widget.TableCellID

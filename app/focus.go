@@ -5,6 +5,7 @@ import (
 
 	"fyne.io/fyne/v2"
 	fynecanvas "fyne.io/fyne/v2/canvas"
+	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 )
@@ -36,7 +37,12 @@ func showFocus(f *fynecanvas.Rectangle, on bool) {
 // black on a light theme and white on a dark one (ringColour).
 type ringButton struct {
 	widget.Button
+	focusHook
 	ring *fynecanvas.Rectangle
+	// onEscape, when set, takes Escape, which fyne's button ignores: a
+	// button of the panels hands it to the window's escape, as the
+	// panels' fields do.
+	onEscape func()
 }
 
 func newRingButton(label string, tapped func()) *ringButton {
@@ -56,6 +62,24 @@ func (b *ringButton) setUp(label string, tapped func()) {
 	b.ring.CornerRadius = theme.InputRadiusSize()
 }
 
+// TypedKey is part of fyne.Focusable.
+func (b *ringButton) TypedKey(k *fyne.KeyEvent) {
+	if k.Name == fyne.KeyEscape && b.onEscape != nil {
+		b.onEscape()
+		return
+	}
+	b.Button.TypedKey(k)
+}
+
+// newButton is a button of the window's panels reading label, with icon
+// (none when nil), that runs tapped; Escape on it gives the focus back to
+// the drawing (escape), as on the panels' fields.
+func (w *Window) newButton(label string, icon fyne.Resource, tapped func()) *ringButton {
+	b := newRingButton(label, tapped)
+	b.Icon, b.onEscape = icon, w.escape
+	return b
+}
+
 // CreateRenderer is part of fyne.Widget: the button's own, with the ring
 // over it.
 func (b *ringButton) CreateRenderer() fyne.WidgetRenderer {
@@ -67,6 +91,7 @@ func (b *ringButton) FocusGained() {
 	b.Button.FocusGained()
 	b.ring.StrokeColor = ringColour()
 	b.ring.Refresh()
+	b.focused()
 }
 
 // FocusLost is part of fyne.Focusable.
@@ -99,4 +124,69 @@ func (r ringRenderer) Layout(size fyne.Size) {
 
 func (r ringRenderer) Objects() []fyne.CanvasObject {
 	return append(r.WidgetRenderer.Objects(), r.ring)
+}
+
+// focusHook is part of a widget that runs onFocus, when set, as the
+// widget gains the focus: a pane that scrolls sets it (followFocus) to
+// bring the widget into sight.
+type focusHook struct{ onFocus func() }
+
+func (h *focusHook) setOnFocus(f func()) { h.onFocus = f }
+
+// focused runs onFocus, if set; the widget's FocusGained calls it.
+func (h *focusHook) focused() {
+	if h.onFocus != nil {
+		h.onFocus()
+	}
+}
+
+// followFocus makes s scroll to each widget of its content that has a
+// focusHook as it gains the focus, so that Tab does not put the focus on
+// a field out of sight, where what is typed goes unseen: fyne's scroll
+// does not follow the focus, and at 1280 × 720 the properties panel shows
+// four fields and the moving-loads form stops above its Apply. Call it
+// again when the content gains widgets. It looks into containers (and
+// theme overrides), not into other widgets or an inner scroll.
+func followFocus(s *container.Scroll) {
+	var walk func(o fyne.CanvasObject)
+	walk = func(o fyne.CanvasObject) {
+		switch v := o.(type) {
+		case interface{ setOnFocus(func()) }:
+			v.setOnFocus(func() { scrollIntoView(s, o) })
+		case *fyne.Container:
+			for _, c := range v.Objects {
+				walk(c)
+			}
+		case *container.ThemeOverride:
+			walk(v.Content)
+		}
+	}
+	walk(s.Content)
+}
+
+// scrollIntoView scrolls s the least that shows o, which lies in its
+// content, whole (or its start, when o is larger than s), along the
+// directions s scrolls.
+func scrollIntoView(s *container.Scroll, o fyne.CanvasObject) {
+	d := fyne.CurrentApp().Driver()
+	at := d.AbsolutePositionForObject(o).Subtract(d.AbsolutePositionForObject(s.Content)) // o in the content
+	view, size := s.Size(), o.Size()
+	offset := s.Offset
+	if s.Direction == container.ScrollBoth || s.Direction == container.ScrollVerticalOnly {
+		offset.Y = showSpan(at.Y, size.Height, offset.Y, view.Height)
+	}
+	if s.Direction == container.ScrollBoth || s.Direction == container.ScrollHorizontalOnly {
+		offset.X = showSpan(at.X, size.Width, offset.X, view.Width)
+	}
+	s.ScrollToOffset(offset)
+}
+
+// showSpan is the scroll offset nearest offset at which a view of length
+// view shows the span of length n from start, or its start when it is
+// longer than the view.
+func showSpan(start, n, offset, view float32) float32 {
+	if start+n > offset+view {
+		offset = start + n - view
+	}
+	return min(offset, start)
 }

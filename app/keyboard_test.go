@@ -3,11 +3,13 @@ package app
 import (
 	"image/color"
 	"math"
+	"reflect"
 	"slices"
 	"testing"
 
 	"fyne.io/fyne/v2"
 	fynecanvas "fyne.io/fyne/v2/canvas"
+	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/test"
 	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
@@ -297,6 +299,257 @@ func TestDialogsStrongButtonsShowTheFocus(t *testing.T) {
 		}
 		if strong == 0 {
 			t.Errorf("%s: no button with a focus ring", d.name)
+		}
+	}
+}
+
+// selectsOf are the selects Tab reaches on c from no focus.
+func selectsOf(c fyne.Canvas) []fyne.Focusable {
+	var ss []fyne.Focusable
+	for _, f := range tabOrder(c) {
+		if selectIn(f.(fyne.CanvasObject)) != nil {
+			ss = append(ss, f)
+		}
+	}
+	return ss
+}
+
+// Enter (Return, or Enter on the keypad) on a select where Tab puts it
+// opens its list, as Space does, and the list takes the focus: fyne's
+// select ignored Enter, so a keyboard user got a list only by Space or an
+// arrow. Every select of the window's panels (a support selected, so that
+// its kind is offered), of its dialogs and of the moving-loads window.
+func TestEnterOpensASelectsList(t *testing.T) {
+	places := []struct {
+		name string
+		open func(t *testing.T) fyne.Canvas
+	}{
+		{"the panels", func(t *testing.T) fyne.Canvas {
+			w, _ := openTestdata(t, "two_span_cases.json", laptop)
+			w.selectItem(canvas.Ref{Kind: canvas.Support, Index: 0})
+			return w.win.Canvas()
+		}},
+		{"the moving-loads window", func(t *testing.T) fyne.Canvas {
+			_, _, mw := runwayWindow(t)
+			return mw.win.Canvas()
+		}},
+	}
+	for _, d := range escapeDialogs {
+		if slices.Contains(dialogsWithChoosers, d.name) && d.name != "nodal loads table" { // a table alone
+			places = append(places, struct {
+				name string
+				open func(t *testing.T) fyne.Canvas
+			}{"the dialog " + d.name, func(t *testing.T) fyne.Canvas {
+				_, c := dialogOnTwoSpans(t, d.name, func(w *Window) { d.show(t, w) })
+				return c
+			}})
+		}
+	}
+	for _, p := range places {
+		c := p.open(t)
+		selects := selectsOf(c)
+		if len(selects) == 0 {
+			t.Errorf("%s: Tab reaches no select", p.name)
+		}
+		for _, f := range selects {
+			for _, key := range []fyne.KeyName{fyne.KeyReturn, fyne.KeyEnter} {
+				tabTo(t, c, f)
+				overlays := len(c.Overlays().List())
+				f.TypedKey(&fyne.KeyEvent{Name: key})
+				if len(c.Overlays().List()) != overlays+1 || c.Focused() == f {
+					t.Errorf("%s: %s on its %s opened no list", p.name, key, nameOf(f.(fyne.CanvasObject)))
+					continue
+				}
+				c.Focused().TypedKey(&fyne.KeyEvent{Name: fyne.KeyEscape}) // closes the list alone
+			}
+		}
+	}
+}
+
+// Escape on any widget of the panels where Tab puts it (a select, a
+// table, a field, a switch, the slider, a button) gives the focus back to
+// the drawing, as Escape in the properties' numbers did already
+// (Window.escape), and leaves the selection and the member as they were;
+// a second Escape, on the drawing, selects nothing (keyNothing). Every one
+// of them but those numbers took the key and ignored it, so the focus
+// stayed where it was. With a support and with a segment selected, whose
+// properties differ.
+func TestEscapeInThePanelsGoesToTheDrawing(t *testing.T) {
+	for _, selected := range []canvas.Ref{{Kind: canvas.Support, Index: 0}, {Kind: canvas.Segment, Index: 0}} {
+		w, _ := openTestdata(t, "two_span_cases.json", laptop)
+		c := w.win.Canvas()
+		w.selectItem(selected)
+		kinds := map[string]int{}
+		for _, f := range tabOrder(c) {
+			o := f.(fyne.CanvasObject)
+			var kind string
+			switch o.(type) {
+			case *drawing:
+				continue
+			case *escSelect, *widget.Select:
+				kind = "select"
+			case *escTable, *widget.Table:
+				kind = "table"
+			case *escEntry, *widget.Entry:
+				kind = "entry"
+			case *escCheck, *widget.Check:
+				kind = "switch"
+			case *escSlider, *widget.Slider:
+				kind = "slider"
+			default:
+				kind = "button"
+			}
+			kinds[kind]++
+			tabTo(t, c, f)
+			before := cloneProject(w.project)
+			f.TypedKey(&fyne.KeyEvent{Name: fyne.KeyEscape})
+			if any(c.Focused()) != any(w.draw) {
+				t.Errorf("%s selected: Escape on the %s left the focus on %s, want the drawing", selected.Kind, nameOf(o), focusName(c))
+			}
+			if w.selected != selected || !reflect.DeepEqual(w.project, before) || c.Overlays().Top() != nil {
+				t.Errorf("%s selected: Escape on the %s changed the selection to %+v, or the member, or opened a dialog", selected.Kind, nameOf(o), w.selected)
+				w.selectItem(selected)
+			}
+		}
+		for _, kind := range []string{"select", "table", "entry", "switch", "slider", "button"} {
+			if kinds[kind] == 0 {
+				t.Errorf("%s selected: Tab reaches no %s in the panels", selected.Kind, kind)
+			}
+		}
+		typeToFocused(t, w, fyne.KeyEscape)
+		if w.selected != canvasNone {
+			t.Errorf("%s selected: a second Escape, on the drawing, left %+v selected, want nothing", selected.Kind, w.selected)
+		}
+	}
+}
+
+// focusName names what has the focus on c, to name it in a failure.
+func focusName(c fyne.Canvas) string {
+	if f := c.Focused(); f != nil {
+		return nameOf(f.(fyne.CanvasObject))
+	}
+	return "nothing"
+}
+
+// Escape closes the moving-loads window, as it closes a dialog of the
+// main window, with the focus nowhere and with it on any widget Tab
+// reaches there (the picture too), leaving the project's trains as they
+// were though a field holds a change not applied; on a select whose list
+// is open, the first Escape closes the list alone. Escape did nothing
+// there: the window's canvas had no keys of its own, and fyne's entries,
+// selects, check boxes and buttons ignore Escape.
+func TestEscapeClosesTheMovingLoadsWindow(t *testing.T) {
+	for k := -1; ; k++ {
+		w, _, mw := runwayWindow(t)
+		c := mw.win.Canvas()
+		order := tabOrder(c)
+		if k == 0 && len(order) == 0 {
+			t.Fatal("Tab reaches nothing in the moving-loads window")
+		}
+		if k >= len(order) {
+			break
+		}
+		mw.name.SetText("a name not applied")
+		before := cloneProject(w.project)
+		what := "with the focus nowhere"
+		if k < 0 {
+			c.Unfocus()
+			if typed := c.OnTypedKey(); typed != nil { // as the driver gives the canvas a key no widget takes
+				typed(&fyne.KeyEvent{Name: fyne.KeyEscape})
+			}
+		} else {
+			f := order[k]
+			what = "on its " + nameOf(f.(fyne.CanvasObject))
+			tabTo(t, c, f)
+			if selectIn(f.(fyne.CanvasObject)) != nil {
+				f.TypedKey(&fyne.KeyEvent{Name: fyne.KeySpace})
+				c.Focused().TypedKey(&fyne.KeyEvent{Name: fyne.KeyEscape})
+				if w.moving == nil || c.Focused() != f {
+					t.Errorf("the moving-loads window: Escape in the open list of its %s closed the window, or left the focus off the select", nameOf(f.(fyne.CanvasObject)))
+					continue
+				}
+			}
+			f.TypedKey(&fyne.KeyEvent{Name: fyne.KeyEscape})
+		}
+		if w.moving != nil {
+			t.Errorf("the moving-loads window: Escape %s left it open", what)
+		}
+		if !reflect.DeepEqual(w.project, before) {
+			t.Errorf("the moving-loads window: Escape %s changed the project", what)
+		}
+	}
+}
+
+// inSight reports whether o, in the content of s, lies whole in the view of s.
+func inSight(s *container.Scroll, o fyne.CanvasObject) bool {
+	d := fyne.CurrentApp().Driver()
+	at := d.AbsolutePositionForObject(o).Subtract(d.AbsolutePositionForObject(s))
+	return at.Y >= -0.5 && at.Y+o.Size().Height <= s.Size().Height+0.5
+}
+
+// scrollOf is the first scroll among the objects under root.
+func scrollOf(t *testing.T, root fyne.CanvasObject) *container.Scroll {
+	t.Helper()
+	for _, o := range test.LaidOutObjects(root) {
+		if s, ok := o.(*container.Scroll); ok {
+			return s
+		}
+	}
+	t.Fatal("no scroll")
+	return nil
+}
+
+// Tab and Shift+Tab bring the widget they put the focus on into sight in
+// a pane that scrolls: on a laptop's screen the properties of a support
+// show its kind and three of its four numbers, and the moving-loads form
+// stops above its Apply, and Tab put the focus (and what was typed) out of
+// sight, as a screenshot of the window at 1280 × 720 showed.
+func TestTabScrollsTheFocusIntoSight(t *testing.T) {
+	for _, p := range []struct {
+		name string
+		open func(t *testing.T) (fyne.Canvas, *container.Scroll)
+	}{
+		{"the properties of a support", func(t *testing.T) (fyne.Canvas, *container.Scroll) {
+			w, _ := openTestdata(t, "two_span_cases.json", laptop)
+			w.selectItem(canvas.Ref{Kind: canvas.Support, Index: 0})
+			return w.win.Canvas(), scrollOf(t, w.ui.properties)
+		}},
+		{"the moving-loads form", func(t *testing.T) (fyne.Canvas, *container.Scroll) {
+			_, _, mw := runwayWindow(t)
+			mw.win.Resize(laptop)
+			return mw.win.Canvas(), mw.formScroll
+		}},
+	} {
+		c, s := p.open(t)
+		var inside []fyne.Focusable
+		for _, f := range tabOrder(c) {
+			if slices.Contains(test.LaidOutObjects(s.Content), f.(fyne.CanvasObject)) {
+				inside = append(inside, f)
+			}
+		}
+		hidden := 0
+		for _, f := range inside {
+			if !inSight(s, f.(fyne.CanvasObject)) {
+				hidden++
+			}
+		}
+		if hidden == 0 {
+			t.Fatalf("%s: every one of its %d widgets is in sight already; the test needs one out of sight", p.name, len(inside))
+		}
+		c.Focus(inside[0])
+		for i, f := range inside {
+			if i > 0 {
+				c.FocusNext()
+			}
+			if c.Focused() != f || !inSight(s, f.(fyne.CanvasObject)) {
+				t.Errorf("%s: Tab to its %s left it out of sight", p.name, nameOf(f.(fyne.CanvasObject)))
+			}
+		}
+		for i := len(inside) - 2; i >= 0; i-- {
+			c.FocusPrevious()
+			if f := inside[i]; c.Focused() != f || !inSight(s, f.(fyne.CanvasObject)) {
+				t.Errorf("%s: Shift+Tab back to its %s left it out of sight", p.name, nameOf(f.(fyne.CanvasObject)))
+			}
 		}
 	}
 }

@@ -254,10 +254,13 @@ func (w *Window) stepSelection(by int) {
 	w.setStatus("selected %s: → and ← step on, Enter types its numbers, Delete removes it", describe(refs[next]))
 }
 
-// editSelection puts the focus on the first number of the properties panel.
+// editSelection puts the focus on the first number of the properties
+// panel with its text selected, so that what is typed replaces it: with
+// the cursor at its start, 2.9 typed over "3.000 m" read "2.93.000 m".
 func (w *Window) editSelection() {
 	if p := &w.ui.panel; len(p.entries) > 0 {
 		w.win.Canvas().Focus(p.entries[0])
+		p.entries[0].TypedShortcut(&fyne.ShortcutSelectAll{})
 	}
 }
 

@@ -334,7 +334,8 @@ func TestClickFocusesTheDrawing(t *testing.T) {
 
 // The arrow keys step the selection through the member's items from left
 // to right, each once, and round again; Enter puts the focus on the
-// selection's first number, so an item is moved by typing alone.
+// selection's first number, its text selected, so an item is moved by
+// typing alone: what is typed replaces the number shown.
 func TestSelectAndEditByKeyboard(t *testing.T) {
 	w, _ := newTestWindow(t, demoProject(t))
 	m := w.Model()
@@ -376,10 +377,10 @@ func TestSelectAndEditByKeyboard(t *testing.T) {
 	if !ok || e != w.ui.panel.entries[0] {
 		t.Fatalf("Enter put the focus on %T, want the support's x", w.win.Canvas().Focused())
 	}
-	e.SetText("2.9 m")
+	test.Type(e, "2.9 m") // over what the field shows, which Enter selected
 	e.TypedKey(&fyne.KeyEvent{Name: fyne.KeyReturn})
 	if got := w.Model().Supports[1].X; got != 2.9 {
-		t.Errorf("typing 2.9 m moved support 2 to x = %g m", got)
+		t.Errorf("typing 2.9 m moved support 2 to x = %g m (the field read %q)", got, e.Text)
 	}
 }
 

@@ -60,6 +60,8 @@ func nameOf(o fyne.CanvasObject) string {
 	switch v := o.(type) {
 	case *widget.Check:
 		return "switch " + quoteOr(v.Text, "")
+	case *escCheck:
+		return "switch " + quoteOr(v.Text, "")
 	case *widget.Select:
 		return "choice " + quoteOr(v.Selected, "")
 	case *escSelect:
@@ -83,8 +85,12 @@ func fyneTypeName(o fyne.CanvasObject) string {
 	switch o.(type) {
 	case *drawing:
 		return "drawing"
+	case *movingPicture:
+		return "picture"
 	case *widget.Table, *escTable:
 		return "table"
+	case *widget.Slider, *escSlider:
+		return "slider"
 	case *widget.List:
 		return "list"
 	}
@@ -97,7 +103,7 @@ func fyneTypeName(o fyne.CanvasObject) string {
 func TestChoicesShowTheirWholeText(t *testing.T) {
 	for _, name := range []string{"demo.json", "two_span_cases.json"} {
 		w, _ := openTestdata(t, name, laptop)
-		for _, s := range []*widget.Select{w.ui.cases.showSelect, w.ui.cases.caseSelect} {
+		for _, s := range []*escSelect{w.ui.cases.showSelect, w.ui.cases.caseSelect} {
 			for _, o := range s.Options {
 				// The room for the text: the select's width less its
 				// icon, the padding by the icon, and the label's inset
@@ -119,7 +125,7 @@ func TestCaseButtonsHaveWords(t *testing.T) {
 	w, _ := openTestdata(t, "two_span_cases.json", laptop)
 	n := 0
 	for _, o := range test.LaidOutObjects(w.ui.cases.box) {
-		if b, ok := o.(*widget.Button); ok {
+		if b := buttonIn(o); b != nil {
 			n++
 			if b.Text == "" {
 				t.Errorf("a button of the load cases shows only an icon")

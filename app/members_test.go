@@ -173,8 +173,8 @@ func fieldEntry(t *testing.T, w *Window, label string) *escEntry {
 func checkNamed(t *testing.T, w *Window, prefix string) *widget.Check {
 	t.Helper()
 	for _, o := range test.LaidOutObjects(w.ui.properties) {
-		if c, ok := o.(*widget.Check); ok && strings.HasPrefix(c.Text, prefix) {
-			return c
+		if c, ok := o.(*escCheck); ok && strings.HasPrefix(c.Text, prefix) {
+			return &c.Check
 		}
 	}
 	t.Fatalf("no check box %q in the properties panel", prefix)
@@ -390,7 +390,7 @@ func TestSupportKindChangeKeepsFreeSprings(t *testing.T) {
 	w.selectItem(canvas.Ref{Kind: canvas.Support, Index: 2})
 	var kind *widget.Select
 	for _, o := range test.LaidOutObjects(w.ui.properties) {
-		if s, ok := o.(*widget.Select); ok {
+		if s := selectIn(o); s != nil {
 			kind = s
 		}
 	}

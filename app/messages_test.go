@@ -4,8 +4,6 @@ import (
 	"strings"
 	"testing"
 
-	"fyne.io/fyne/v2/widget"
-
 	"stave/fem"
 	"stave/fem/units"
 )
@@ -66,13 +64,13 @@ func TestValidationMessagesInWindowUnits(t *testing.T) {
 // Appendix B).
 func TestTrainMessagesInWindowUnits(t *testing.T) {
 	for _, c := range []struct {
-		entry func(mw *movingWindow) *widget.Entry
+		entry func(mw *movingWindow) *escEntry
 		typed string
 		want  string
 	}{
-		{func(mw *movingWindow) *widget.Entry { return mw.step }, "-2", "the step is -2 ft: enter a step above zero"},
-		{func(mw *movingWindow) *widget.Entry { return mw.from }, "1000", "the train's run starts at x = 1000 ft, which is not on the member (0 to "},
-		{func(mw *movingWindow) *widget.Entry { return mw.axleRows[0].load }, "-3", "axle 1 has a load of -3 kip: an axle load"},
+		{func(mw *movingWindow) *escEntry { return mw.step }, "-2", "the step is -2 ft: enter a step above zero"},
+		{func(mw *movingWindow) *escEntry { return mw.from }, "1000", "the train's run starts at x = 1000 ft, which is not on the member (0 to "},
+		{func(mw *movingWindow) *escEntry { return mw.axleRows[0].load }, "-3", "axle 1 has a load of -3 kip: an axle load"},
 	} {
 		w, q, mw := runwayWindow(t)
 		w.setUnits(units.USCustomary)

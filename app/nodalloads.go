@@ -84,7 +84,7 @@ func (c *controls) showElementLoads(i int) {
 			body = append(body, l)
 		}
 	}
-	table := widget.NewButton("Every node…", w.showNodalTable)
+	table := w.newButton("Every node…", nil, w.showNodalTable)
 	c.properties.Objects = []fyne.CanvasObject{container.NewBorder(heading(fmt.Sprintf("Properties — element %d", i+1)),
 		table, nil, nil, container.NewVScroll(container.NewVBox(body...)))}
 	c.properties.Refresh()

@@ -6,7 +6,6 @@ import (
 	"testing"
 
 	"fyne.io/fyne/v2/test"
-	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
 	"stave/storage"
@@ -100,7 +99,7 @@ func TestMaterialNameRefusesControlCharacters(t *testing.T) {
 	before := w.Model().Segments[0].Material.Name
 	var name func(string)
 	for _, o := range test.LaidOutObjects(w.ui.properties) {
-		if e, ok := o.(*widget.Entry); ok && e.Text == before {
+		if e, ok := o.(*escEntry); ok && e.Text == before {
 			name = e.OnSubmitted
 		}
 	}

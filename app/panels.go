@@ -45,20 +45,20 @@ type controls struct {
 	w            *Window
 	toolButtons  map[tool]*ringButton
 	strip        *container.Scroll // the tools and the load cases, left of the drawing
-	kindSelect   *widget.Select
+	kindSelect   *escSelect
 	cases        *casesPanel
 	properties   *fyne.Container // the properties pane, rebuilt for each kind of item
 	panel        propertiesPanel
 	readout      *readout
 	checks       *checksList
-	elements     *widget.Entry
+	elements     *escEntry
 	elementsUsed *widget.Label // the element count actually solved
-	layerChecks  map[*bool]*widget.Check
-	order        *widget.Select
+	layerChecks  map[*bool]*escCheck
+	order        *escSelect
 	orders       []barOrder
-	unitSelect   *widget.Select
-	grid         *widget.Entry
-	magnify      *widget.Slider
+	unitSelect   *escSelect
+	grid         *escEntry
+	magnify      *escSlider
 	magnifyText  *widget.Label
 }
 
@@ -69,13 +69,13 @@ type controls struct {
 // mouse and the checks, each in a pane that scrolls; the status and the
 // caution at the foot.
 func (w *Window) build() {
-	c := &controls{w: w, toolButtons: map[tool]*ringButton{}, layerChecks: map[*bool]*widget.Check{}}
+	c := &controls{w: w, toolButtons: map[tool]*ringButton{}, layerChecks: map[*bool]*escCheck{}}
 	w.ui = c
 	w.status = newStatusLine(w)
 
 	strip := container.NewVBox(heading("Tools"))
 	for _, t := range tools {
-		b := newRingButton(fmt.Sprintf("%s  (%c)", t.label, t.key-'a'+'A'), func() { w.setTool(t.tool) })
+		b := w.newButton(fmt.Sprintf("%s  (%c)", t.label, t.key-'a'+'A'), nil, func() { w.setTool(t.tool) })
 		b.Alignment = widget.ButtonAlignLeading
 		c.toolButtons[t.tool] = b
 		strip.Add(b)
@@ -84,7 +84,7 @@ func (w *Window) build() {
 	for i, k := range supportKinds {
 		names[i] = k.String()
 	}
-	c.kindSelect = widget.NewSelect(names, nil)
+	c.kindSelect = w.newSelect(names, nil)
 	c.kindSelect.SetSelected(w.kind.String())
 	c.kindSelect.OnChanged = func(s string) {
 		if k, ok := fem.ParseSupportKind(s); ok {
@@ -99,6 +99,7 @@ func (w *Window) build() {
 
 	c.properties = container.NewStack()
 	c.readout = newReadout()
+	c.readout.table.OnEscape = w.escape
 	c.checks = newChecksList(w)
 	readoutAndChecks := container.NewVSplit(c.readout.pane(), c.checks.pane())
 	readoutAndChecks.SetOffset(0.5)
@@ -139,27 +140,28 @@ func heading(s string) *widget.Label {
 // actionBar holds the commands above the drawing, the snapping step and the units.
 func (c *controls) actionBar() fyne.CanvasObject {
 	w := c.w
-	c.grid = widget.NewEntry()
+	c.grid = newEscEntry()
+	c.grid.OnEscape = w.escape
 	c.grid.OnSubmitted = func(s string) { w.setGrid(s) }
 	c.showGrid()
-	c.unitSelect = widget.NewSelect([]string{units.SI.Name + " units", units.USCustomary.Name + " units"}, func(s string) {
+	c.unitSelect = w.newSelect([]string{units.SI.Name + " units", units.USCustomary.Name + " units"}, func(s string) {
 		if sys, ok := units.ByName(strings.TrimSuffix(s, " units")); ok && sys.Name != w.units.Name {
 			w.setUnits(sys)
 		}
 	})
 	c.unitSelect.SetSelected(w.units.Name + " units")
 	c.cases.bar = newFlow(
-		widget.NewButtonWithIcon("Add…", theme.ContentAddIcon(), w.showAddForm),
-		widget.NewButtonWithIcon("Undo", theme.ContentUndoIcon(), w.undo),
-		widget.NewButtonWithIcon("Redo", theme.ContentRedoIcon(), w.redo),
-		widget.NewButtonWithIcon("Delete", theme.DeleteIcon(), w.deleteSelected),
-		widget.NewButtonWithIcon("Fit view", theme.ZoomFitIcon(), w.draw.fit),
+		w.newButton("Add…", theme.ContentAddIcon(), w.showAddForm),
+		w.newButton("Undo", theme.ContentUndoIcon(), w.undo),
+		w.newButton("Redo", theme.ContentRedoIcon(), w.redo),
+		w.newButton("Delete", theme.DeleteIcon(), w.deleteSelected),
+		w.newButton("Fit view", theme.ZoomFitIcon(), w.draw.fit),
 		container.NewBorder(nil, nil, widget.NewLabel("Snap"), nil, fixedWidth(110, c.grid)),
 		c.unitSelect,
 		// The choices of the load cases: shown, edited, combined.
 		container.NewHBox(widget.NewLabel("Show"), fitOptions(c.cases.showSelect, 260)),
 		container.NewHBox(widget.NewLabel("Editing"), fitOptions(c.cases.caseSelect, 200)),
-		widget.NewButton("Combinations…", w.showCombinations))
+		w.newButton("Combinations…", nil, w.showCombinations))
 	return c.cases.bar
 }
 
@@ -183,17 +185,18 @@ func barOrders() (orders []barOrder, beam string) {
 // meshBar makes the mesh settings shown below the drawing.
 func (c *controls) meshBar() []fyne.CanvasObject {
 	w := c.w
-	c.elements = widget.NewEntry()
+	c.elements = newEscEntry()
+	c.elements.OnEscape = w.escape
 	c.elements.OnSubmitted = func(s string) { w.setElements(s) }
-	finer := widget.NewButton("Double", func() { w.scaleElements(2) })
-	coarser := widget.NewButton("Halve", func() { w.scaleElements(0.5) })
+	finer := w.newButton("Double", nil, func() { w.scaleElements(2) })
+	coarser := w.newButton("Halve", nil, func() { w.scaleElements(0.5) })
 	orders, beam := barOrders()
 	c.orders = orders
 	names := make([]string, len(orders))
 	for i, o := range orders {
 		names[i] = o.name
 	}
-	c.order = widget.NewSelect(names, func(s string) {
+	c.order = w.newSelect(names, func(s string) {
 		for _, o := range c.orders {
 			if o.name == s && o.order != orderOf(w.project.Model.Mesh) {
 				w.apply("use "+s+" elements for the axial part", func(m *fem.Model) error { m.Mesh.BarOrder = o.order; return nil })
@@ -235,7 +238,7 @@ func (l widthLayout) Layout(objects []fyne.CanvasObject, size fyne.Size) {
 func (c *controls) layerBar() []fyne.CanvasObject {
 	w := c.w
 	toggle := func(label string, on *bool) fyne.CanvasObject {
-		ch := widget.NewCheck(label, func(v bool) {
+		ch := w.newCheck(label, func(v bool) {
 			*on = v
 			w.draw.Refresh()
 			w.updateTitle()
@@ -245,14 +248,14 @@ func (c *controls) layerBar() []fyne.CanvasObject {
 		return ch
 	}
 	o := &w.project.View.Overlays
-	c.magnify = widget.NewSlider(0, 4) // log10 of the magnification
+	c.magnify = w.newSlider(0, 4) // log10 of the magnification
 	c.magnify.Step = 0.05
 	c.magnify.OnChanged = func(v float64) {
 		w.project.View.Magnification = math.Round(math.Pow(10, v))
 		c.showMagnification()
 		w.draw.Refresh()
 	}
-	auto := widget.NewButton("auto", func() {
+	auto := w.newButton("auto", nil, func() {
 		w.project.View.Magnification = 0
 		c.showMagnification()
 		w.draw.Refresh()

@@ -219,17 +219,18 @@ func (c *controls) showProperties() {
 	// The buttons stay in view below the fields, which scroll.
 	var buttons []fyne.CanvasObject
 	if len(fields) > 0 {
-		apply := newRingButton("Apply", applyAll)
+		apply := w.newButton("Apply", nil, applyAll)
 		apply.Importance = widget.HighImportance
 		buttons = append(buttons, apply)
 	}
 	if r.Kind != canvas.None {
-		buttons = append(buttons, widget.NewButtonWithIcon("Delete "+describe(r), theme.DeleteIcon(), w.deleteSelected))
+		buttons = append(buttons, w.newButton("Delete "+describe(r), theme.DeleteIcon(), w.deleteSelected))
 	}
 	message.Hide() // until there is something to say
 	foot := container.NewVBox(message, newFlow(buttons...))
-	c.properties.Objects = []fyne.CanvasObject{container.NewBorder(heading("Properties — "+title), foot, nil, nil,
-		container.NewVScroll(container.NewVBox(objects...)))}
+	scroll := container.NewVScroll(container.NewVBox(objects...))
+	followFocus(scroll)
+	c.properties.Objects = []fyne.CanvasObject{container.NewBorder(heading("Properties — "+title), foot, nil, nil, scroll)}
 	c.properties.Refresh()
 }
 
@@ -273,7 +274,8 @@ func (w *Window) typingHint(fields []field) string {
 // a label a file can hold (storage's rules).
 func (c *controls) materialName(i int, message *widget.Label) fyne.CanvasObject {
 	w := c.w
-	name := widget.NewEntry()
+	name := newEscEntry()
+	name.OnEscape = w.escape
 	name.SetText(w.project.Model.Segments[i].Material.Name)
 	name.OnSubmitted = func(s string) {
 		p := cloneProject(w.project)
@@ -302,7 +304,7 @@ func (c *controls) choices(r canvas.Ref) []fyne.CanvasObject {
 		for i, k := range supportKinds {
 			names[i] = k.String()
 		}
-		s := widget.NewSelect(names, nil)
+		s := w.newSelect(names, nil)
 		s.SetSelected(m.Supports[r.Index].Kind.String())
 		s.OnChanged = func(name string) {
 			k, _ := fem.ParseSupportKind(name)
@@ -321,7 +323,7 @@ func (c *controls) choices(r canvas.Ref) []fyne.CanvasObject {
 		}
 		return []fyne.CanvasObject{container.NewBorder(nil, nil, widget.NewLabel("Kind"), nil, s)}
 	case canvas.DistributedLoad, canvas.LoadVertex:
-		s := widget.NewSelect([]string{"transverse (+ up)", "axial (+ along x)"}, nil)
+		s := w.newSelect([]string{"transverse (+ up)", "axial (+ along x)"}, nil)
 		dir := m.DistributedLoad[r.Index].Direction
 		if dir == fem.Axial {
 			s.SetSelected("axial (+ along x)")
@@ -359,7 +361,7 @@ func (c *controls) choices(r canvas.Ref) []fyne.CanvasObject {
 // after what when it changes.
 func (c *controls) toggle(label string, on bool, what string, at func(m *fem.Model) *bool) fyne.CanvasObject {
 	w := c.w
-	box := widget.NewCheck(label, nil)
+	box := w.newCheck(label, nil)
 	box.SetChecked(on)
 	box.OnChanged = func(on bool) {
 		if on == *at(&w.project.Model) {

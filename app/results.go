@@ -23,7 +23,7 @@ import (
 // with the names in one row ran past a laptop screen's readout.
 type readout struct {
 	at    *widget.Label
-	table *widget.Table
+	table *escTable
 	rows  [][readoutColumns]string
 	// columns is the number shown: the governing column is an envelope's.
 	columns int
@@ -60,7 +60,7 @@ func newReadout() *readout {
 		t.TextSize = size
 		return container.New(layout.NewCustomPaddedLayout(0, 0, 4, 4), t)
 	}
-	r.table = widget.NewTable(
+	r.table = newEscTable(
 		func() (int, int) { return len(r.rows), r.columns },
 		cell,
 		func(id widget.TableCellID, o fyne.CanvasObject) {

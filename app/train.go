@@ -37,31 +37,31 @@ type movingWindow struct {
 	index int // the train shown, in w.project.Trains; −1 for none
 
 	// The form.
-	trainSelect *widget.Select
-	name        *widget.Entry
-	direction   *widget.Select
-	offEnds     *widget.Check
-	from, to    *widget.Entry
-	step        *widget.Entry
+	trainSelect *escSelect
+	name        *escEntry
+	direction   *escSelect
+	offEnds     *escCheck
+	from, to    *escEntry
+	step        *escEntry
 	axles       *fyne.Container
 	axleRows    []axleRow
 	formScroll  *container.Scroll // holds the form: laid out again when rows change
-	uniform     [3]*widget.Entry  // load, start, length
+	uniform     [3]*escEntry      // load, start, length
 	// The labels that name units: the axle table's heading and each
 	// number's (showUnits).
 	axlesHeading *widget.Label
 	unitLabels   []unitLabel
 	// shown holds the numbers the form wrote, so a field left as it was
 	// reads back the train's own value, not its four figures.
-	shown map[*widget.Entry]shownNumber
+	shown map[*escEntry]shownNumber
 
-	quantity     *widget.Select
-	targetSelect *widget.Select
+	quantity     *escSelect
+	targetSelect *escSelect
 	// withSelect offers the train alone or a combination that takes it;
 	// withNames are the combinations it offers after the train alone.
-	withSelect *widget.Select
+	withSelect *escSelect
 	withNames  []string
-	point      *widget.Entry // where the line of a field is, typed (pinAt)
+	point      *escEntry // where the line of a field is, typed (pinAt)
 	pic        *movingPicture
 	readout    *widget.Label
 	status     *widget.Label
@@ -100,7 +100,7 @@ type shownNumber struct {
 // axleRow is one row of the axle table.
 type axleRow struct {
 	number        *widget.Label
-	load, spacing *widget.Entry
+	load, spacing *escEntry
 	row           *fyne.Container
 }
 
@@ -115,10 +115,15 @@ func (w *Window) showMovingLoads() {
 		return
 	}
 	mw := &movingWindow{w: w, index: -1, reaction: -1, quantityIndex: slices.Index(moving.EnvelopeQuantities, fem.QBendingMoment),
-		shown: map[*widget.Entry]shownNumber{}}
+		shown: map[*escEntry]shownNumber{}}
 	mw.win = w.app.NewWindow("Stave — moving loads")
 	mw.build()
 	mw.win.SetOnClosed(func() { w.moving = nil })
+	mw.win.Canvas().SetOnTypedKey(func(k *fyne.KeyEvent) {
+		if k.Name == fyne.KeyEscape {
+			mw.win.Close()
+		}
+	})
 	w.moving = mw
 	if len(w.project.Trains) > 0 {
 		mw.choose(0)
@@ -129,29 +134,58 @@ func (w *Window) showMovingLoads() {
 	mw.win.Show()
 }
 
+// newEntry is an empty single-line entry of the window. Escape closes
+// the window wherever the focus is in it, as it closes a dialog of the
+// main window, where before it did nothing: its entries, selects, check
+// box, buttons and picture hand it on, and with the focus nowhere the
+// window's canvas takes it (showMovingLoads). What was typed and not
+// applied goes unused, as with a dialog's Cancel; the open list of a
+// select takes the first Escape itself and closes alone.
+func (mw *movingWindow) newEntry() *escEntry {
+	e := newEscEntry()
+	e.OnEscape = mw.win.Close
+	return e
+}
+
+// newSelect is a select of the window of options calling changed on a change.
+func (mw *movingWindow) newSelect(options []string, changed func(string)) *escSelect {
+	s := newEscSelect(options, changed)
+	s.OnEscape = mw.win.Close
+	return s
+}
+
+// newButton is a button of the window reading label that runs tapped;
+// Enter presses it, as Space does (dialogButton).
+func (mw *movingWindow) newButton(label string, tapped func()) *dialogButton {
+	b := mw.w.newDialogButton(label, tapped)
+	b.onEscape = mw.win.Close
+	return b
+}
+
 func (mw *movingWindow) build() {
 	mw.readout = widget.NewLabel("")
 	mw.readout.Wrapping = fyne.TextWrapWord
 	mw.status = widget.NewLabel("")
 	mw.status.Wrapping = fyne.TextWrapWord
 	mw.pic = newMovingPicture(mw)
-	mw.trainSelect = widget.NewSelect(nil, func(s string) {
+	mw.trainSelect = mw.newSelect(nil, func(s string) {
 		if i := slices.Index(mw.trainSelect.Options, s); i >= 0 && i != mw.index {
 			mw.choose(i)
 		}
 	})
-	mw.name = widget.NewEntry()
-	mw.direction = widget.NewSelect([]string{"both", "forward", "backward"}, nil)
-	mw.offEnds = widget.NewCheck("Drives on and off at the ends", nil)
-	mw.from, mw.to, mw.step = widget.NewEntry(), widget.NewEntry(), widget.NewEntry()
+	mw.name = mw.newEntry()
+	mw.direction = mw.newSelect([]string{"both", "forward", "backward"}, nil)
+	mw.offEnds = newEscCheck("Drives on and off at the ends", nil)
+	mw.offEnds.OnEscape = mw.win.Close
+	mw.from, mw.to, mw.step = mw.newEntry(), mw.newEntry(), mw.newEntry()
 	mw.to.SetPlaceHolder("the member's end")
 	mw.step.SetPlaceHolder("from the mesh")
 	for i := range mw.uniform {
-		mw.uniform[i] = widget.NewEntry()
+		mw.uniform[i] = mw.newEntry()
 	}
 	mw.uniform[0].SetPlaceHolder("none")
 	mw.axles = container.NewVBox()
-	for _, e := range append([]*widget.Entry{mw.name, mw.from, mw.to, mw.step}, mw.uniform[:]...) {
+	for _, e := range append([]*escEntry{mw.name, mw.from, mw.to, mw.step}, mw.uniform[:]...) {
 		mw.submits(e)
 	}
 	form := container.New(layout.NewFormLayout(),
@@ -174,27 +208,27 @@ func (mw *movingWindow) build() {
 	left := container.NewVBox(
 		heading("Train"),
 		container.NewBorder(nil, nil, nil, container.NewHBox(
-			widget.NewButton("New", mw.newTrain), widget.NewButton("Delete", mw.deleteTrain)), mw.trainSelect),
+			mw.newButton("New", mw.newTrain), mw.newButton("Delete", mw.deleteTrain)), mw.trainSelect),
 		form,
 		mw.offEnds,
 		mw.axlesHeading,
 		mw.axles,
-		widget.NewButton("Add an axle", func() { mw.addAxleRow(moving.Axle{}); mw.rowsChanged() }),
+		mw.newButton("Add an axle", func() { mw.addAxleRow(moving.Axle{}); mw.rowsChanged() }),
 		heading("Uniform load moving with it"),
 		uniform,
-		widget.NewButton("Apply", mw.apply),
+		mw.newButton("Apply", mw.apply),
 	)
 	names := make([]string, len(moving.EnvelopeQuantities))
 	for i, q := range moving.EnvelopeQuantities {
 		names[i] = q.String()
 	}
-	mw.quantity = widget.NewSelect(names, nil)
+	mw.quantity = mw.newSelect(names, nil)
 	mw.quantity.SetSelected(names[mw.quantityIndex])
 	mw.quantity.OnChanged = func(s string) {
 		mw.quantityIndex = slices.Index(names, s)
 		mw.showLine()
 	}
-	mw.withSelect = widget.NewSelect(nil, func(s string) {
+	mw.withSelect = mw.newSelect(nil, func(s string) {
 		name := ""
 		if k := slices.Index(mw.withSelect.Options, s); k > 0 {
 			name = mw.withNames[k-1]
@@ -204,7 +238,7 @@ func (mw *movingWindow) build() {
 			mw.modelChanged()
 		}
 	})
-	mw.targetSelect = widget.NewSelect(nil, nil)
+	mw.targetSelect = mw.newSelect(nil, nil)
 	mw.targetSelect.OnChanged = func(s string) {
 		mw.reaction = slices.Index(mw.targetSelect.Options, s) - 1
 		mw.showLine()
@@ -215,12 +249,12 @@ func (mw *movingWindow) build() {
 	wide := func(o fyne.CanvasObject, w float32) fyne.CanvasObject {
 		return container.NewGridWrap(fyne.NewSize(w, o.MinSize().Height), o)
 	}
-	mw.point = widget.NewEntry()
+	mw.point = mw.newEntry()
 	mw.point.SetPlaceHolder("under the mouse")
 	mw.point.OnSubmitted = mw.pinAt
 	top := newFlow(widget.NewLabel("Field"), wide(mw.quantity, 190), widget.NewLabel("Envelope of"), wide(mw.withSelect, 300),
 		widget.NewLabel("Influence line of"), wide(mw.targetSelect, 380),
-		container.NewHBox(widget.NewLabel("at x"), wide(mw.point, 150)), widget.NewButton("Worst position", mw.toWorst))
+		container.NewHBox(widget.NewLabel("at x"), wide(mw.point, 150)), mw.newButton("Worst position", mw.toWorst))
 	hint := widget.NewLabel("Drag the train, or ← → on the picture (Tab to it); a click pins the influence line, another frees it.")
 	hint.Wrapping = fyne.TextWrapWord
 	// The controls come last: the canvas lays a container out again for
@@ -231,6 +265,7 @@ func (mw *movingWindow) build() {
 	below := container.NewVBox(mw.readout, hint)
 	center := container.New(layout.NewBorderLayout(top, below, nil, nil), mw.pic, below, top)
 	mw.formScroll = container.NewVScroll(left)
+	followFocus(mw.formScroll)
 	split := container.NewHSplit(mw.formScroll, center)
 	split.SetOffset(0.27)
 	mw.win.SetContent(container.NewBorder(nil, container.NewVBox(widget.NewSeparator(), mw.status, warning), nil, nil, split))
@@ -352,7 +387,7 @@ func (mw *movingWindow) choose(i int) {
 // setNumber writes v, of kind k, in e in display units without the unit
 // symbol, or nothing for a zero that means "not given" (empty), and keeps
 // it for number.
-func (mw *movingWindow) setNumber(e *widget.Entry, k units.Kind, v float64, empty bool) {
+func (mw *movingWindow) setNumber(e *escEntry, k units.Kind, v float64, empty bool) {
 	text := ""
 	if v != 0 || !empty {
 		text = units.FormatNumber(mw.w.units.ToDisplay(k, v))
@@ -364,7 +399,7 @@ func (mw *movingWindow) setNumber(e *widget.Entry, k units.Kind, v float64, empt
 // number reads e as a value of kind k, SI: the value setNumber wrote while
 // its text is as written, else what is typed there (0 for nothing, when
 // optional).
-func (mw *movingWindow) number(e *widget.Entry, k units.Kind, optional bool) (float64, error) {
+func (mw *movingWindow) number(e *escEntry, k units.Kind, optional bool) (float64, error) {
 	empty := strings.TrimSpace(e.Text) == ""
 	if s, ok := mw.shown[e]; ok && e.Text == s.text && !empty {
 		return s.value, nil
@@ -390,7 +425,7 @@ func (mw *movingWindow) setAxleRows(axles []moving.Axle) {
 }
 
 func (mw *movingWindow) addAxleRow(a moving.Axle) {
-	r := axleRow{number: widget.NewLabel(strconv.Itoa(len(mw.axleRows) + 1)), load: widget.NewEntry(), spacing: widget.NewEntry()}
+	r := axleRow{number: widget.NewLabel(strconv.Itoa(len(mw.axleRows) + 1)), load: mw.newEntry(), spacing: mw.newEntry()}
 	mw.submits(r.load)
 	mw.submits(r.spacing)
 	r.load.SetPlaceHolder("load")
@@ -401,7 +436,7 @@ func (mw *movingWindow) addAxleRow(a moving.Axle) {
 	} else {
 		mw.setNumber(r.spacing, units.Position, a.Spacing, true)
 	}
-	remove := widget.NewButton("×", nil)
+	remove := mw.newButton("×", nil)
 	r.row = container.NewBorder(nil, nil, r.number, remove, container.NewGridWithColumns(2, r.load, r.spacing))
 	remove.OnTapped = func() { mw.removeAxleRow(r.row) }
 	mw.axleRows = append(mw.axleRows, r)
@@ -441,18 +476,20 @@ func (mw *movingWindow) removeAxleRow(row *fyne.Container) {
 	mw.rowsChanged()
 }
 
-// rowsChanged lays the form out again for the axle table's new rows.
+// rowsChanged lays the form out again for the axle table's new rows,
+// which the form's scroll then brings into sight as they gain the focus.
 func (mw *movingWindow) rowsChanged() {
 	if mw.formScroll == nil {
 		return // still being built
 	}
+	followFocus(mw.formScroll)
 	mw.formScroll.Content.Refresh()
 	mw.formScroll.Refresh()
 }
 
 // submits makes Enter in e apply the form, as Enter does in the
 // window's properties: at 1280 × 720 the Apply button is below the fold.
-func (mw *movingWindow) submits(e *widget.Entry) {
+func (mw *movingWindow) submits(e *escEntry) {
 	e.OnSubmitted = func(string) { mw.apply() }
 }
 
@@ -484,7 +521,7 @@ func (mw *movingWindow) readTrain() (moving.Train, error) {
 	d, _ := moving.ParseDirection(mw.direction.Selected)
 	t.Direction = d
 	t.OffEnds = mw.offEnds.Checked
-	read := func(e *widget.Entry, k units.Kind, what string) (float64, error) {
+	read := func(e *escEntry, k units.Kind, what string) (float64, error) {
 		v, err := mw.number(e, k, true)
 		if err != nil {
 			return 0, fmt.Errorf("%s: %v", what, err)
@@ -496,7 +533,7 @@ func (mw *movingWindow) readTrain() (moving.Train, error) {
 		return t, err
 	}
 	fields := []struct {
-		e    *widget.Entry
+		e    *escEntry
 		k    units.Kind
 		what string
 		v    *float64
@@ -898,9 +935,14 @@ func (p *movingPicture) FocusLost() { showFocus(p.frame, false) }
 func (p *movingPicture) TypedRune(rune) {}
 
 // TypedKey is part of fyne.Focusable: ← and → move the train one of its
-// positions back or on, as a drag does by the mouse.
+// positions back or on, as a drag does by the mouse; Escape closes the
+// window, as it does on the window's widgets.
 func (p *movingPicture) TypedKey(ev *fyne.KeyEvent) {
 	mw := p.mw
+	if ev.Name == fyne.KeyEscape {
+		mw.win.Close()
+		return
+	}
 	if mw.env == nil {
 		return
 	}

@@ -112,7 +112,7 @@ func TestMovingWindowShowsEveryAxle(t *testing.T) {
 // did nothing, and the picture gave no sign of focus.
 func TestMovingWindowByKeyboard(t *testing.T) {
 	w, q, mw := runwayWindow(t)
-	fields := map[string]*widget.Entry{"spacing": mw.axleRows[1].spacing, "name": mw.name, "step": mw.step}
+	fields := map[string]*escEntry{"spacing": mw.axleRows[1].spacing, "name": mw.name, "step": mw.step}
 	for what, e := range fields {
 		want := w.project.Trains[0]
 		switch what {
@@ -206,7 +206,7 @@ func TestMovingWindowRemovesTheAxleClicked(t *testing.T) {
 func axleRemover(t *testing.T, r axleRow) *widget.Button {
 	t.Helper()
 	for _, o := range test.LaidOutObjects(r.row) {
-		if b, ok := o.(*widget.Button); ok && b.Text == "×" {
+		if b := buttonIn(o); b != nil && b.Text == "×" {
 			return b
 		}
 	}

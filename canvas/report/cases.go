@@ -196,7 +196,7 @@ func CasesResults(a *analysis.Analysis) (*CasesJSON, error) {
 	for k, cb := range c.Combinations {
 		cj := CombinationJSON{Name: cb.Name, Kind: cb.Kind.String(), Label: cb.Label}
 		for _, f := range cb.Factors {
-			cj.Factors = append(cj.Factors, FactorJSON{Case: m.LoadSetName(f.Case), Factor: plainZero(f.Factor)})
+			cj.Factors = append(cj.Factors, FactorJSON{Case: m.LoadSetName(f.Case), Factor: PlainZero(f.Factor)})
 		}
 		if k < len(c.Summaries) && c.Summaries[k] != nil {
 			cj.Results = resultsOf(*c.Summaries[k])
@@ -298,7 +298,7 @@ func (g GoverningJSON) Arrangement(u units.System) string {
 func FactorsText(c CombinationJSON) string {
 	var b strings.Builder
 	for i, f := range c.Factors {
-		sign, factor := "+", plainZero(f.Factor)
+		sign, factor := "+", PlainZero(f.Factor)
 		if factor < 0 {
 			sign, factor = "−", -factor
 		}
@@ -317,9 +317,10 @@ func FactorsText(c CombinationJSON) string {
 	return b.String()
 }
 
-// plainZero is f with a zero of either sign as 0: a file may write a
-// factor "-0", which is no subtraction and reads "-0" in a document.
-func plainZero(f float64) float64 {
+// PlainZero is f with a zero of either sign as 0: a file may write a
+// factor "-0", and a user may type one, which is no subtraction and reads
+// "-0" in a document or a field.
+func PlainZero(f float64) float64 {
 	if f == 0 {
 		return 0
 	}
@@ -351,7 +352,7 @@ func (r *CasesJSON) addTrainFactors(m *fem.Model, trains []moving.Train) {
 			}
 			for _, tf := range cb.Trains {
 				if tf.Train >= 0 && tf.Train < len(trains) {
-					c.Factors = append(c.Factors, FactorJSON{Train: trains[tf.Train].Name, Factor: plainZero(tf.Factor)})
+					c.Factors = append(c.Factors, FactorJSON{Train: trains[tf.Train].Name, Factor: PlainZero(tf.Factor)})
 				}
 			}
 		}

@@ -199,7 +199,7 @@ func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem
 			// station itself.
 			leftBase := base(e.Stations, fem.Left, false)
 			onLeft, onRight := sides[0].Combine(tf.Factor, leftBase), sides[1].Combine(tf.Factor, right)
-			tc := TrainCombination{Combination: cb.Name, Factor: plainZero(tf.Factor), Envelope: c, solutions: cs, index: ci, sides: map[sideRead]fem.Side{}}
+			tc := TrainCombination{Combination: cb.Name, Factor: PlainZero(tf.Factor), Envelope: c, solutions: cs, index: ci, sides: map[sideRead]fem.Side{}}
 			for q := range moving.EnvelopeQuantities {
 				scale := 0.0
 				for s := range e.Stations {
