@@ -213,7 +213,7 @@ func (b *builder) envelopeBand(in MovingInput, bands *MovingBands) {
 		}
 		p := Point{b.sx(w.ex.X), toY(w.ex.Value)}
 		b.circle(p, 3.5, w.c, w.c, 1)
-		b.place(text1(fmt.Sprintf("%s at %s", b.format(info.Unit, w.ex.Value), b.format(units.Position, w.ex.X)), smallSize, w.c, false,
+		b.place(text1(b.format(info.Unit, w.ex.Value)+" "+w.ex.Side.At(b.format(units.Position, w.ex.X)), smallSize, w.c, false,
 			labelSpot{p.X + 7, p.Y, 0, 0.5}, labelSpot{p.X - 7, p.Y, 1, 0.5}, labelSpot{p.X, p.Y + 6 - 12*w.ay, 0.5, 1 - w.ay}))
 	}
 }

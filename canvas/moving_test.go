@@ -163,3 +163,37 @@ func TestMovingPictureOffTheEnds(t *testing.T) {
 		}
 	}
 }
+
+// The envelope's extremes are labelled with the side of a jump they are
+// read on, as the results table labels a case's (fem.Side.At): the
+// fixture's shear force over the middle support, where the reaction makes
+// it jump, largest just right of 5.000 m and smallest just left of it
+// (the mirror image of the two spans), the moment there with no side.
+func TestMovingPictureLabelsTheSideOfAJump(t *testing.T) {
+	in := movingFixture(t)
+	for _, c := range []struct {
+		q     int
+		wants []string
+	}{
+		{2, []string{" just right of 5.000 m", " just left of 5.000 m"}},
+		{3, nil},
+	} {
+		in.Quantity = c.q
+		s, _ := BuildMoving(in, 1200, 700)
+		var texts []string
+		for _, it := range s.Items {
+			if it.Kind == Text {
+				texts = append(texts, it.Text)
+			}
+		}
+		all := strings.Join(texts, "\n")
+		for _, want := range c.wants {
+			if !strings.Contains(all, want) {
+				t.Errorf("%s: no label %q among:\n%s", moving.EnvelopeQuantities[c.q], want, all)
+			}
+		}
+		if c.wants == nil && strings.Contains(all, "just ") {
+			t.Errorf("%s: a side where nothing jumps:\n%s", moving.EnvelopeQuantities[c.q], all)
+		}
+	}
+}

@@ -268,7 +268,7 @@ func trainExtremeText(e TrainExtreme, k units.Kind, u units.System, at bool, siz
 	}
 	s := value(e.Value)
 	if at {
-		s += " at x = " + u.Format(units.Position, e.X)
+		s += " " + fem.SideNamed(e.Side).At("x = "+u.Format(units.Position, e.X))
 	}
 	s += fmt.Sprintf(", front at %s %s", u.Format(units.Position, e.Front), e.Direction)
 	if e.FE != nil {
@@ -420,7 +420,7 @@ func MovingPicture(r *MovingLoads, i int, u units.System) (canvas.MovingInput, e
 		in.Quantity = slices.Index(moving.EnvelopeQuantities, fem.QBendingMoment)
 	}
 	if tr.Target {
-		in.Worst = []moving.Extreme{placed(tr.Largest), placed(tr.Smallest)}
+		in.Worst = []moving.Extreme{tr.Largest.Extreme(), tr.Smallest.Extreme()}
 		in.At = in.Worst[0].Placement
 	} else {
 		hi, _ := tr.Envelope.Worst(moving.EnvelopeQuantities[in.Quantity])
@@ -438,12 +438,6 @@ func MovingPicture(r *MovingLoads, i int, u units.System) (canvas.MovingInput, e
 		in.Current[s] = q.Of(&f)
 	}
 	return in, nil
-}
-
-// placed turns a reported extreme back into the package's own.
-func placed(e TrainExtreme) moving.Extreme {
-	d, _ := moving.ParseDirection(e.Direction)
-	return moving.Extreme{Value: e.Value, X: e.X, Placement: moving.Placement{Direction: d, Front: e.Front}}
 }
 
 // MovingSheet is the one-page sheet of r with train i (from 0): the
@@ -487,8 +481,9 @@ func MovingSheet(p *storage.Project, r *MovingLoads, i int, u units.System) (can
 	for _, w := range tr.Worst {
 		k := w.Quantity.Info().Unit
 		size := max(math.Abs(w.Largest.Value), math.Abs(w.Smallest.Value))
-		s.Rows = append(s.Rows, []string{w.Quantity.String(), withFE(k, w.Largest, size), pos(w.Largest.X), front(w.Largest),
-			withFE(k, w.Smallest, size), pos(w.Smallest.X), front(w.Smallest)})
+		place := func(e TrainExtreme) string { return fem.SideNamed(e.Side).Place(pos(e.X)) }
+		s.Rows = append(s.Rows, []string{w.Quantity.String(), withFE(k, w.Largest, size), place(w.Largest), front(w.Largest),
+			withFE(k, w.Smallest, size), place(w.Smallest), front(w.Smallest)})
 	}
 	for _, re := range tr.Envelope.Reactions {
 		k := units.Force

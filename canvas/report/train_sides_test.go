@@ -1,0 +1,98 @@
+package report
+
+import (
+	"encoding/json"
+	"strings"
+	"testing"
+
+	"stave/fem"
+	"stave/fem/moving"
+	"stave/fem/units"
+	"stave/storage"
+)
+
+// A train's extremes say on which side of a jump they are read, as the
+// static extremes do (fem.Side.At, Place; JSON "side"): the runway's end
+// carriage, 42 kN –3.2 m– 42 kN over two spans of 6 m, gives the shear
+// force ±65.43 kN either side of the middle support, P + P·(1 − R₁(2.8))
+// with R₁(a) = (L − a)/L − a(L² − a²)/(4L³) (two equal spans, a load in
+// the first: AISC Beam Diagrams and Formulas, continuous beam – two equal
+// spans – concentrated load at any point, from memory), the largest just
+// right of 6 m and the smallest just left of it; the moment over the
+// support, which does not jump, says no side. In the text in SI and US
+// units, in the JSON and on the sheet.
+func TestTrainExtremesSayTheirSide(t *testing.T) {
+	p, err := storage.Load("../../testdata/moving/runway.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := Influence(p, InfluenceRequest{Target: moving.Target{Quantity: fem.QShearForce, X: 3, Side: fem.Right}, Points: 4, Envelope: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		u           units.System
+		right, left string
+	}{
+		{units.SI, "65.43 kN just right of x = 6.000 m", "-65.43 kN just left of x = 6.000 m"},
+		{units.USCustomary, "14.71 kip just right of x = 19.69 ft", "-14.71 kip just left of x = 19.69 ft"},
+	} {
+		var b strings.Builder
+		WriteInfluenceText(&b, "runway.json", r, c.u)
+		text := b.String()
+		for _, want := range []string{c.right, c.left} {
+			if !strings.Contains(text, want) {
+				t.Errorf("%s: the text lacks %q:\n%s", c.u.Name, want, text)
+			}
+		}
+		for _, line := range strings.Split(text, "\n") {
+			if strings.Contains(line, "bending moment") && strings.Contains(line, "just ") {
+				t.Errorf("%s: the moment, which does not jump, has a side: %s", c.u.Name, line)
+			}
+		}
+	}
+
+	var doc []struct {
+		Train string
+		Worst []struct {
+			Quantity          string
+			Largest, Smallest struct {
+				Value, X float64
+				Side     string
+			}
+		}
+	}
+	data, err := json.Marshal(TrainsJSON(&p.Model, r.Trains, false))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := json.Unmarshal(data, &doc); err != nil {
+		t.Fatal(err)
+	}
+	for _, w := range doc[0].Worst {
+		want := [2]string{}
+		if w.Quantity == "shear_force" {
+			want = [2]string{"right", "left"}
+		}
+		if got := [2]string{w.Largest.Side, w.Smallest.Side}; got != want {
+			t.Errorf("JSON %s: sides %q, want %q", w.Quantity, got, want)
+		}
+	}
+
+	sheet, err := MovingSheet(p, r, 0, units.SI)
+	if err != nil {
+		t.Fatal(err)
+	}
+	found := false
+	for _, row := range sheet.Rows {
+		if row[0] == fem.QShearForce.String() {
+			found = true
+			if row[2] != "just right of 6.000 m" || row[5] != "just left of 6.000 m" {
+				t.Errorf("sheet: shear force at %q and %q, want just right of and just left of 6.000 m", row[2], row[5])
+			}
+		}
+	}
+	if !found {
+		t.Error("no shear force row on the sheet")
+	}
+}

@@ -1,0 +1,81 @@
+package moving
+
+import (
+	"testing"
+
+	"stave/fem"
+)
+
+// A train's extreme at a point where its envelope jumps says on which side
+// of the point it is read (Extreme.Side), as a single case's extreme does
+// (fem.Extreme.SideMax), and none where the envelope does not jump.
+//
+// Two equal spans L (supports at 0, L, 2L), two axles P at spacing d: the
+// shear force just right of the middle support is largest with the front
+// axle just past it and the rear one on the second span, and by symmetry
+// the smallest just left of it. For a load in the first span at a from
+// the end support, the reaction there is R₁ = (L − a)/L − a(L² − a²)/(4L³)
+// per unit load (two-span continuous beam, the moment over the middle
+// support −a(L² − a²)/(4L²): AISC Beam Diagrams and Formulas, continuous
+// beam – two equal spans – concentrated load at any point, from memory),
+// so V just left of the middle support is R₁ − 1 with the load at a, and
+// −1 with the load just left of the support: the smallest, with the
+// front axle just left of the support and the rear one at L − d, is
+// −P − P·(1 − R₁(L − d)) (65.43 kN for the runway's 42 kN at 3.2 m on
+// 6 m). The moment over the support does not jump (no couple acts
+// there): no side.
+//
+// A cantilever of length c fixed at 0 carrying at a hinge (x = c) a
+// suspended span to a roller at c + l: two axles P at spacing d, the front
+// at c + d and the rear on the hinge, load the hinge with
+// V = P + P·(l − d)/l, and the cantilever's tip turns by V·c²/(2EI)
+// (cantilever with an end load, Roark's Formulas for Stress and Strain,
+// table of beam formulas, from memory): the smallest rotation, just left
+// of the hinge, where the rotation jumps.
+func TestTrainExtremesSayTheSideOfAJump(t *testing.T) {
+	const L, P, d = 6.0, 42e3, 3.2
+	spans := beam(2*L, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: L, Kind: fem.Roller}, fem.Support{X: 2 * L, Kind: fem.Roller})
+	r1 := func(a float64) float64 { return (L-a)/L - a*(L*L-a*a)/(4*L*L*L) }
+	shear := -P - P*(1-r1(L-d))
+	const c, l = 4.0, 6.0
+	hinged := beam(c+l, fem.Support{X: 0, Kind: fem.Fixed}, fem.Support{X: c + l, Kind: fem.Roller})
+	hinged.Hinges = []fem.Hinge{{X: c}}
+	ei := hinged.Segments[0].Material.Elastic * hinged.Segments[0].Section.SecondMoment
+	turn := -(P + P*(l-d)/l) * c * c / (2 * ei)
+	train := func() *Train {
+		return &Train{Name: "two axles", Axles: []Axle{{Load: P}, {Load: P, Spacing: d}}, Direction: BothWays, Step: 0.1}
+	}
+	for _, tc := range []struct {
+		name  string
+		m     *fem.Model
+		q     fem.Quantity
+		upper bool
+		x     float64
+		value float64
+		side  fem.Side
+	}{
+		{"shear force largest, two spans", spans, fem.QShearForce, true, L, -shear, fem.Right},
+		{"shear force smallest, two spans", spans, fem.QShearForce, false, L, shear, fem.Left},
+		{"moment over the support, two spans", spans, fem.QBendingMoment, false, L, 0, 0},
+		{"rotation at the hinge", hinged, fem.QRotation, false, c, turn, fem.Left},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			p, in := prepared(t, tc.m)
+			e, err := in.Envelope(train(), p.Mesh(), nil)
+			if err != nil {
+				t.Fatal(err)
+			}
+			hi, lo := e.Worst(tc.q)
+			got := lo
+			if tc.upper {
+				got = hi
+			}
+			if !near(got.X, tc.x, 1e-9) || tc.value != 0 && !near(got.Value, tc.value, 1e-9) {
+				t.Errorf("%s: %.12g at x = %g, want %.12g at x = %g", tc.q, got.Value, got.X, tc.value, tc.x)
+			}
+			if got.Side != tc.side {
+				t.Errorf("%s %.12g at x = %g: read on side %q, want %q", tc.q, got.Value, got.X, got.Side.Name(), tc.side.Name())
+			}
+		})
+	}
+}
