@@ -819,7 +819,7 @@ func (mw *movingWindow) showReadout() {
 		}
 	}
 	if mw.line != nil && len(mw.worst) == 2 {
-		what := mw.line.Target.Describe(u.Format(units.Position, mw.line.Target.X))
+		what := mw.line.Describe(u.Format(units.Position, mw.line.Target.X))
 		own := "the train's"
 		if mw.combined != nil {
 			own = "the train's own (no cases, no factor)"

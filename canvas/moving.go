@@ -248,7 +248,7 @@ func (b *builder) influenceBand(in MovingInput, bands *MovingBands) {
 	mid, per := fitRange(min(lo.Value, 0), max(hi.Value, 0), top, bottom)
 	bands.InfluenceBaseline, bands.InfluencePerPixel = mid, per
 	toY := func(v float64) float32 { return mid - float32(v/per) }
-	what := l.Target.Describe(b.format(units.Position, l.Target.X))
+	what := l.Describe(b.format(units.Position, l.Target.X))
 	b.text(fmt.Sprintf("influence line of the %s, for %s; positive up", what, l.Target.UnitLoad(b.u.Unit(units.Force).Symbol)), 8, bands.InfluenceTop, labelSize, 0, 0, inkColour, true)
 	b.line(dimensionColour, 1, Point{b.sx(0), mid}, Point{b.sx(in.Model.Length()), mid})
 	for _, piece := range l.Polylines(600) {

@@ -57,7 +57,7 @@ func TestMovingPictureNamesTheSide(t *testing.T) {
 	for _, c := range []struct {
 		side fem.Side
 		want string
-	}{{fem.Left, "influence line of the shear force at x = 5.000 m, just left of it,"}, {fem.Right, "influence line of the shear force at x = 5.000 m,"}} {
+	}{{fem.Left, "influence line of the shear force just left of x = 5.000 m,"}, {fem.Right, "influence line of the shear force just right of x = 5.000 m,"}} {
 		tg := moving.Target{Quantity: fem.QShearForce, X: 5, Side: c.side}
 		p, err := fem.Prepare(in.Model)
 		if err != nil {

@@ -152,7 +152,7 @@ func WriteInfluenceText(w io.Writer, path string, r *MovingLoads, u units.System
 	unit, scale := influenceUnit(t, u)
 	value := func(v float64) string { return units.FormatNumber(v*scale) + " " + unit }
 	fmt.Fprintf(w, "Stave %s: %s\n", Version, path)
-	fmt.Fprintf(w, "Influence line of the %s, for %s\n", describeTarget(t, u), t.UnitLoad(u.Unit(units.Force).Symbol))
+	fmt.Fprintf(w, "Influence line of the %s, for %s\n", describeTarget(r.Line, u), t.UnitLoad(u.Unit(units.Force).Symbol))
 	fmt.Fprintln(w, "(exact solution of the member in closed form; finite elements: one solve per load position on one factorization, the load on the nearest node)")
 	tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', 0)
 	fmt.Fprintln(tw, "  load at\texact\tfinite elements")
@@ -169,14 +169,14 @@ func WriteInfluenceText(w io.Writer, path string, r *MovingLoads, u units.System
 	tw.Flush()
 	fmt.Fprintf(w, "  largest %s with the load at %s; smallest %s with the load at %s\n",
 		value(r.Largest.Value), pos(r.Largest.S), value(r.Smallest.Value), pos(r.Smallest.S))
-	writeTrainsText(w, r.Trains, r.Member.Model(), &t, u)
+	writeTrainsText(w, r.Trains, r.Member.Model(), r.Line, u)
 	fmt.Fprintln(w, "\nCaution:", fem.Caution)
 }
 
 // writeTrainsText writes what each train does on model m: how it runs,
 // its extremes of target when one is given, and over all its positions
 // the extremes of every field and reaction with the positions that govern.
-func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *moving.Target, u units.System) {
+func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *moving.Line, u units.System) {
 	pos := func(x float64) string { return u.Format(units.Position, x) }
 	tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', 0)
 	for _, tr := range trains {
@@ -190,12 +190,12 @@ func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *mo
 		}
 		switch {
 		case tr.Target && target != nil:
-			kind := targetKind(*target)
+			kind := targetKind(target.Target)
 			size := max(math.Abs(tr.Largest.Value), math.Abs(tr.Smallest.Value))
-			fmt.Fprintf(w, "  %s: largest %s, smallest %s\n", describeTarget(*target, u),
+			fmt.Fprintf(w, "  %s: largest %s, smallest %s\n", describeTarget(target, u),
 				trainExtremeText(tr.Largest, kind, u, false, size), trainExtremeText(tr.Smallest, kind, u, false, size))
 		case target != nil:
-			fmt.Fprintf(w, "  %s: 0 wherever the train stands; a train's loads act across the member and move no axial force or axial displacement\n", describeTarget(*target, u))
+			fmt.Fprintf(w, "  %s: 0 wherever the train stands; a train's loads act across the member and move no axial force or axial displacement\n", describeTarget(target, u))
 		}
 		if tr.Envelope == nil {
 			continue
@@ -277,9 +277,10 @@ func trainExtremeText(e TrainExtreme, k units.Kind, u units.System, at bool, siz
 	return s
 }
 
-// describeTarget names the target with its position in display units.
-func describeTarget(t moving.Target, u units.System) string {
-	return t.Describe(u.Format(units.Position, t.X))
+// describeTarget names the target of l with its position in display
+// units and, where it jumps there, its side (moving.Line.Describe).
+func describeTarget(l *moving.Line, u units.System) string {
+	return l.Describe(u.Format(units.Position, l.Target.X))
 }
 
 // describeTrain says what a train is, in one line.
@@ -459,7 +460,7 @@ func MovingSheet(p *storage.Project, r *MovingLoads, i int, u units.System) (can
 	s.About = []string{
 		describeTrain(&tr.Train, tr.Label, L, u) + fmt.Sprintf("; %d positions in each direction, %s apart.", tr.Envelope.Positions, u.Format(units.Position, tr.Envelope.Step)),
 		fmt.Sprintf("Influence line of the %s for %s: largest %s %s with the load at %s, smallest %s %s at %s; exact solution in closed form, checked by one finite element solve per position.",
-			describeTarget(r.Line.Target, u), r.Line.Target.UnitLoad(u.Unit(units.Force).Symbol), units.FormatNumber(r.Largest.Value*scale), unit, u.Format(units.Position, r.Largest.S),
+			describeTarget(r.Line, u), r.Line.Target.UnitLoad(u.Unit(units.Force).Symbol), units.FormatNumber(r.Largest.Value*scale), unit, u.Format(units.Position, r.Largest.S),
 			units.FormatNumber(r.Smallest.Value*scale), unit, u.Format(units.Position, r.Smallest.S)),
 		"Envelope: at every station the largest and smallest value over all positions (where an axle stands on the station, on the side that gives more); each extreme below is solved again by finite elements with the train at its governing position.",
 	}

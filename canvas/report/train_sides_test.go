@@ -20,7 +20,9 @@ import (
 // spans – concentrated load at any point, from memory), the largest just
 // right of 6 m and the smallest just left of it; the moment over the
 // support, which does not jump, says no side. In the text in SI and US
-// units, in the JSON and on the sheet.
+// units, in the JSON and on the sheet; the influence line's target, the
+// shear force at 3 m, which jumps under the unit load there, says the side
+// it is read on in the same words.
 func TestTrainExtremesSayTheirSide(t *testing.T) {
 	p, err := storage.Load("../../testdata/moving/runway.json")
 	if err != nil {
@@ -31,16 +33,16 @@ func TestTrainExtremesSayTheirSide(t *testing.T) {
 		t.Fatal(err)
 	}
 	for _, c := range []struct {
-		u           units.System
-		right, left string
+		u                   units.System
+		target, right, left string
 	}{
-		{units.SI, "65.43 kN just right of x = 6.000 m", "-65.43 kN just left of x = 6.000 m"},
-		{units.USCustomary, "14.71 kip just right of x = 19.69 ft", "-14.71 kip just left of x = 19.69 ft"},
+		{units.SI, "shear force just right of x = 3.000 m: largest", "65.43 kN just right of x = 6.000 m", "-65.43 kN just left of x = 6.000 m"},
+		{units.USCustomary, "shear force just right of x = 9.843 ft: largest", "14.71 kip just right of x = 19.69 ft", "-14.71 kip just left of x = 19.69 ft"},
 	} {
 		var b strings.Builder
 		WriteInfluenceText(&b, "runway.json", r, c.u)
 		text := b.String()
-		for _, want := range []string{c.right, c.left} {
+		for _, want := range []string{c.target, c.right, c.left} {
 			if !strings.Contains(text, want) {
 				t.Errorf("%s: the text lacks %q:\n%s", c.u.Name, want, text)
 			}

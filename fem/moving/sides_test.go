@@ -79,3 +79,36 @@ func TestTrainExtremesSayTheSideOfAJump(t *testing.T) {
 		})
 	}
 }
+
+// An influence line's target says its side where its quantity jumps at the
+// point, in the words of the static outputs (fem.Side.At): the shear force
+// (which jumps under the unit load standing on the point, Line.Jump, and
+// by the reaction at a support), the rotation at a hinge (the two parts
+// turn apart); not the moment over a support or the deflection, which do
+// not jump, nor anything at an end of the member, which has one side.
+func TestLineSaysItsSideWhereItJumps(t *testing.T) {
+	const L = 6.0
+	m := beam(2*L, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: L, Kind: fem.Roller}, fem.Support{X: 2 * L, Kind: fem.Fixed})
+	m.Hinges = []fem.Hinge{{X: 9}}
+	in := influence(t, m)
+	for _, c := range []struct {
+		tg   Target
+		want string
+	}{
+		{Target{Quantity: fem.QShearForce, X: L, Side: fem.Left}, "shear force just left of x = 6 m"},
+		{Target{Quantity: fem.QShearForce, X: L, Side: fem.Right}, "shear force just right of x = 6 m"},
+		{Target{Quantity: fem.QShearForce, X: 3, Side: fem.Left}, "shear force just left of x = 3 m"},
+		{Target{Quantity: fem.QBendingMoment, X: L, Side: fem.Left}, "bending moment at x = 6 m"},
+		{Target{Quantity: fem.QBendingMoment, X: 3, Side: fem.Right}, "bending moment at x = 3 m"},
+		{Target{Quantity: fem.QRotation, X: 9, Side: fem.Right}, "rotation just right of x = 9 m"},
+		{Target{Quantity: fem.QRotation, X: L, Side: fem.Left}, "rotation at x = 6 m"},
+		{Target{Quantity: fem.QDeflection, X: 9, Side: fem.Left}, "deflection at x = 9 m"},
+		{Target{Quantity: fem.QShearForce, X: 0, Side: fem.Left}, "shear force at x = 0 m"},
+		{Target{Reaction: true, Support: 1, Motion: fem.Transverse}, "transverse reaction of support 2"},
+	} {
+		x := trim(c.tg.X) + " m"
+		if got := line(t, in, c.tg).Describe(x); got != c.want {
+			t.Errorf("%v: %q, want %q", c.tg, got, c.want)
+		}
+	}
+}
