@@ -2,6 +2,7 @@ package report
 
 import (
 	"encoding/json"
+	"math"
 	"strings"
 	"testing"
 
@@ -96,5 +97,42 @@ func TestTrainExtremesSayTheirSide(t *testing.T) {
 	}
 	if !found {
 		t.Error("no shear force row on the sheet")
+	}
+}
+
+// A combination that takes a train says the side of its extremes where
+// their sum jumps: two equal spans L = 4 m (two_span_cases.json) under
+// 1.35 × q = 10 kN/m over both spans, whose shear force is ±5qL/8 either
+// side of the middle support (AISC Beam Diagrams and Formulas, continuous
+// beam – two equal spans – uniform load, from memory), and 1.5 × a trolley
+// of 12 kN –1.2 m– 12 kN, ±(P + P·(1 − R₁(L − d))) there as above: the
+// largest just right of 4 m, the smallest just left of it.
+func TestTrainCombinationExtremesSayTheirSide(t *testing.T) {
+	p, err := storage.Load("../../testdata/two_span_cases.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	const q, L, P, d = 10e3, 4.0, 12e3, 1.2
+	p.Trains = []moving.Train{{Name: "trolley", Axles: []moving.Axle{{Load: P}, {Load: P, Spacing: d}}, Step: 0.05}}
+	p.Model.Combinations = append(p.Model.Combinations, fem.Combination{Name: "with trolley", Kind: fem.Strength,
+		Factors: []fem.CaseFactor{{Case: 0, Factor: 1.35}}, Trains: []fem.TrainFactor{{Train: 0, Factor: 1.5}}})
+	rs, err := TrainEnvelopes(p, units.Base)
+	if err != nil {
+		t.Fatal(err)
+	}
+	a := L - d
+	r1 := (L-a)/L - a*(L*L-a*a)/(4*L*L*L)
+	v := 1.35*5*q*L/8 + 1.5*(P+P*(1-r1))
+	for _, w := range rs[0].Combinations[0].Worst {
+		want := [2]string{}
+		if w.Quantity == fem.QShearForce {
+			want = [2]string{"right", "left"}
+			if math.Abs(w.Largest.Value-v) > 1e-9*v || math.Abs(w.Smallest.Value+v) > 1e-9*v || w.Largest.X != L || w.Smallest.X != L {
+				t.Errorf("shear force %.10g at %g and %.10g at %g, want ±%.10g at %g", w.Largest.Value, w.Largest.X, w.Smallest.Value, w.Smallest.X, v, L)
+			}
+		}
+		if got := [2]string{w.Largest.Side, w.Smallest.Side}; got != want {
+			t.Errorf("%s: sides %q, want %q", w.Quantity, got, want)
+		}
 	}
 }

@@ -112,3 +112,37 @@ func TestLineSaysItsSideWhereItJumps(t *testing.T) {
 		}
 	}
 }
+
+// An extreme at a support is placed on the support itself, not a hair
+// beside it: the runway's 42 kN –3.2 m– 42 kN over two spans of 6 m gives
+// its shear force and its hogging moment over the middle support, with
+// the rear axle 3.2 m behind a front at 9.2 m (9.2 − 3.2 =
+// 5.999999999999999 in floating point), and the envelope's peak under
+// that axle, within the key points' tolerance of the support's station,
+// named x = 5.999999999999999 in the JSON. The station is the support's.
+func TestExtremeAtASupportIsOnIt(t *testing.T) {
+	const L, P, d = 6.0, 42e3, 3.2
+	m := beam(2*L, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: L, Kind: fem.Roller}, fem.Support{X: 2 * L, Kind: fem.Roller})
+	m.Mesh.Elements = 120
+	p, in := prepared(t, m)
+	e, err := in.Envelope(&Train{Name: "end carriage", Axles: []Axle{{Load: P}, {Load: P, Spacing: d}}, Direction: BothWays, Step: 0.05}, p.Mesh(), nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, q := range []fem.Quantity{fem.QShearForce, fem.QBendingMoment} {
+		hi, lo := e.Worst(q)
+		for _, x := range []Extreme{hi, lo} {
+			if q == fem.QBendingMoment && x == hi {
+				continue // the sagging moment lies in a span
+			}
+			if x.X != L {
+				t.Errorf("%s %.12g at x = %.17g, want on the support at %g", q, x.Value, x.X, L)
+			}
+		}
+	}
+	for i := 1; i < len(e.Stations); i++ {
+		if e.Stations[i]-e.Stations[i-1] <= keyTolerance*2*L {
+			t.Errorf("stations %.17g and %.17g are one point", e.Stations[i-1], e.Stations[i])
+		}
+	}
+}
