@@ -160,6 +160,12 @@ func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side, w *window) {
 		if b == a && total > 2 {
 			continue // two breaks at one front: the stretches either side hold it
 		}
+		if b == a {
+			// A run of one position: no stretch of positions to take
+			// limits over, only the train where it stands.
+			r.evaluate(ls, hi, lo, a, r.axleOn(ls, a, jumps), jumps)
+			continue
+		}
 		mid := 0.5 * (a + b)
 		full := summed < 0 || summed == resumEvery || len(r.axles) <= shortTrain || a-summedAt > ell
 		if full {
@@ -568,18 +574,23 @@ func (r *run) scanMeetings(ls *lines, hi, lo []extreme, sides []fem.Side) {
 			if meet < 2 {
 				continue
 			}
-			at := -1 // the axle on ls.at, if any
-			if len(sides) > 0 {
-				for b, other := range r.axles {
-					if math.Abs(front+other.offset-ls.at) <= r.tolerance {
-						at = b
-						break
-					}
-				}
-			}
-			r.evaluate(ls, hi, lo, front, at, sides)
+			r.evaluate(ls, hi, lo, front, r.axleOn(ls, front, sides), sides)
 		}
 	}
+}
+
+// axleOn is the axle that stands on ls.at with the front at front, where
+// the lines jump there on the sides given (see evaluate), or −1.
+func (r *run) axleOn(ls *lines, front float64, sides []fem.Side) int {
+	if len(sides) == 0 {
+		return -1
+	}
+	for a, ax := range r.axles {
+		if math.Abs(front+ax.offset-ls.at) <= r.tolerance {
+			return a
+		}
+	}
+	return -1
 }
 
 // axlesNear is the number of axles whose offset lies within the tolerance
@@ -836,6 +847,25 @@ func Stations(mesh fem.Mesh) []float64 {
 
 // bothSides are the sides of a jump an envelope takes: the larger of the two.
 var bothSides = []fem.Side{fem.Left, fem.Right}
+
+// standingSides are the sides of its jump that a line read at a station
+// on side takes for an axle standing on the station (lines.standing). At
+// a key point, read on each side by a line of its own (a support, whose
+// reaction stands on the point with the axle), the axle is on the far
+// side of the cut from the side read, as Influence.Worst takes it: the
+// limit with it beyond the point is another position, which the scan
+// takes where the run has it, and a run that ends with the axle on the
+// point has not. Elsewhere the field at the station jumps under the axle
+// itself, and both its sides are the field there.
+func standingSides(key bool, side fem.Side) []fem.Side {
+	switch {
+	case !key:
+		return bothSides
+	case side == fem.Left:
+		return []fem.Side{fem.Right}
+	}
+	return []fem.Side{fem.Left}
+}
 
 // parallelStations is the number of stations from which Envelope works on
 // two goroutines.
@@ -1204,7 +1234,9 @@ func (in *Influence) envelopeStations(s *sweeps, e *Envelope, from, to int) {
 	for st := from; st < to; st++ {
 		x := e.Stations[st]
 		sides := []fem.Side{fem.Right}
-		if k := s.keyIndex(x); math.Abs(x-s.keys[k]) <= keyTolerance*s.length {
+		k := s.keyIndex(x)
+		key := math.Abs(x-s.keys[k]) <= keyTolerance*s.length
+		if key {
 			x = s.keys[k]
 			switch {
 			case k == 0:
@@ -1220,7 +1252,7 @@ func (in *Influence) envelopeStations(s *sweeps, e *Envelope, from, to int) {
 		var his, los [2][len(envelopeRows) + 1]extreme // the rows, then the bending stress
 		for k, side := range sides {
 			in.stationReaders(s, x, side, rs[:])
-			scanRuns(s, &ls, &w, rs[:], runs, hi[:], lo[:], bothSides)
+			scanRuns(s, &ls, &w, rs[:], runs, hi[:], lo[:], standingSides(key, side))
 			seg := m.Segments[segmentAt(m, x, side)].Section
 			stress := seg.FibreDistance / seg.SecondMoment
 			for q := range EnvelopeQuantities {
