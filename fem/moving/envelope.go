@@ -862,9 +862,9 @@ func standingSides(key bool, side fem.Side) []fem.Side {
 	case !key:
 		return bothSides
 	case side == fem.Left:
-		return []fem.Side{fem.Right}
+		return bothSides[1:]
 	}
-	return []fem.Side{fem.Left}
+	return bothSides[:1]
 }
 
 // parallelStations is the number of stations from which Envelope works on

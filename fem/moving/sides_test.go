@@ -146,3 +146,31 @@ func TestExtremeAtASupportIsOnIt(t *testing.T) {
 		}
 	}
 }
+
+// Of equal peaks, the first along the member: one axle P over two equal
+// spans L gives the largest moment under itself at a = ξL in either span,
+// R₁·a with R₁ = Pb/(4L³)·(4L² − a(L + a)), b = L − a (AISC Beam Diagrams
+// and Formulas, continuous beam – two equal spans – concentrated load at
+// any point, from memory): M = PL·(ξ − 5ξ²/4 + ξ⁴/4), largest where
+// 1 − 5ξ/2 + ξ³ = 0, ξ = 0.43232... The two spans' peaks tie but for
+// round-off, and the envelope named the one in the second span,
+// x = 15.68 m on spans of 10 m, where the load case envelope names the
+// first of equal extremes along the member.
+func TestEqualPeaksNameTheFirst(t *testing.T) {
+	const L, P = 10.0, 100e3
+	m := beam(2*L, fem.Support{X: 0, Kind: fem.Pinned}, fem.Support{X: L, Kind: fem.Roller}, fem.Support{X: 2 * L, Kind: fem.Roller})
+	p, in := prepared(t, m)
+	e, err := in.Envelope(&Train{Name: "one", Axles: []Axle{{Load: P}}, Direction: BothWays, Step: 0.2}, p.Mesh(), nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	xi := 0.4
+	for range 50 { // Newton on 1 − 5ξ/2 + ξ³
+		xi -= (1 - 2.5*xi + xi*xi*xi) / (-2.5 + 3*xi*xi)
+	}
+	want := P * L * (xi - 1.25*xi*xi + 0.25*xi*xi*xi*xi)
+	hi, _ := e.Worst(fem.QBendingMoment)
+	if !near(hi.Value, want, 1e-9) || !near(hi.X, xi*L, 1e-6) {
+		t.Errorf("largest moment %.12g N·m at x = %.9g m, want %.12g N·m at x = %.9g m (the first span's)", hi.Value, hi.X, want, xi*L)
+	}
+}
