@@ -385,10 +385,7 @@ func WriteInfluenceJSON(w io.Writer, path string, r *MovingLoads) error {
 		l.Support, l.Motion = t.Support+1, t.Motion.String()
 	} else {
 		q, x := t.Quantity, t.X
-		l.Quantity, l.X, l.Side = &q, &x, "right"
-		if t.Side == fem.Left {
-			l.Side = "left"
-		}
+		l.Quantity, l.X, l.Side = &q, &x, r.Line.Side().Name()
 	}
 	l.Samples, l.Pieces, l.Largest, l.Smallest = r.Samples, r.Line.Pieces(), r.Largest, r.Smallest
 	j.Trains = TrainsJSON(r.Member.Model(), r.Trains, true)

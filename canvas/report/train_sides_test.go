@@ -136,3 +136,44 @@ func TestTrainCombinationExtremesSayTheirSide(t *testing.T) {
 		}
 	}
 }
+
+// The influence document gives the side its line is read on where the
+// quantity jumps at the point, and only there (docs/json.md,
+// influence_line.side), as Line.Describe says it: the shear force just
+// left of the runway's middle support, "left"; the moment there, which
+// does not jump, none (it read "right").
+func TestInfluenceJSONSideWhereItJumps(t *testing.T) {
+	p, err := storage.Load("../../testdata/moving/runway.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		tg   moving.Target
+		want string
+	}{
+		{moving.Target{Quantity: fem.QShearForce, X: 6, Side: fem.Left}, "left"},
+		{moving.Target{Quantity: fem.QShearForce, X: 6, Side: fem.Right}, "right"},
+		{moving.Target{Quantity: fem.QBendingMoment, X: 6, Side: fem.Right}, ""},
+		{moving.Target{Quantity: fem.QBendingMoment, X: 2.4, Side: fem.Left}, ""},
+	} {
+		r, err := Influence(p, InfluenceRequest{Target: c.tg, Points: 2})
+		if err != nil {
+			t.Fatal(err)
+		}
+		var b strings.Builder
+		if err := WriteInfluenceJSON(&b, "runway.json", r); err != nil {
+			t.Fatal(err)
+		}
+		var doc struct {
+			Line struct {
+				Side string `json:"side"`
+			} `json:"influence_line"`
+		}
+		if err := json.Unmarshal([]byte(b.String()), &doc); err != nil {
+			t.Fatal(err)
+		}
+		if doc.Line.Side != c.want {
+			t.Errorf("%v: side %q, want %q", c.tg, doc.Line.Side, c.want)
+		}
+	}
+}

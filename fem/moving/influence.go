@@ -49,14 +49,19 @@ func (l *Line) Describe(x string) string {
 	if t.Reaction {
 		return t.String()
 	}
-	var side fem.Side
-	if l.sided {
-		side = t.Side
-		if side == 0 {
-			side = fem.Right // as read (Target.Side)
-		}
+	return fmt.Sprintf("%s %s", t.Quantity, l.Side().At("x = "+x))
+}
+
+// Side is the side of its point that l's target is read on where its
+// quantity jumps there (see sided), 0 where the side does not matter.
+func (l *Line) Side() fem.Side {
+	switch {
+	case !l.sided:
+		return 0
+	case l.Target.Side == 0:
+		return fem.Right // as read (Target.Side)
 	}
-	return fmt.Sprintf("%s %s", t.Quantity, side.At("x = "+x))
+	return l.Target.Side
 }
 
 // inner is t read on the member: at either end only one side of the point
