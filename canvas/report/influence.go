@@ -380,7 +380,7 @@ func WriteInfluenceJSON(w io.Writer, path string, r *MovingLoads) error {
 	j.File, j.Units, j.Caution = path, "SI base units: m, N, N·m, Pa, rad; influence ordinates per N of the unit load", fem.Caution
 	t := r.Line.Target
 	l := &j.Line
-	l.Target, l.UnitLoad, l.Method = t.String(), t.UnitLoad("N"), influenceMethod
+	l.Target, l.UnitLoad, l.Method = r.Line.String(), t.UnitLoad("N"), influenceMethod
 	if t.Reaction {
 		l.Support, l.Motion = t.Support+1, t.Motion.String()
 	} else {

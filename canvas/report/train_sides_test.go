@@ -141,20 +141,21 @@ func TestTrainCombinationExtremesSayTheirSide(t *testing.T) {
 // quantity jumps at the point, and only there (docs/json.md,
 // influence_line.side), as Line.Describe says it: the shear force just
 // left of the runway's middle support, "left"; the moment there, which
-// does not jump, none (it read "right").
+// does not jump, none (it read "right"); its target in words likewise
+// (it read "bending moment at x = 2.4 m (left side)").
 func TestInfluenceJSONSideWhereItJumps(t *testing.T) {
 	p, err := storage.Load("../../testdata/moving/runway.json")
 	if err != nil {
 		t.Fatal(err)
 	}
 	for _, c := range []struct {
-		tg   moving.Target
-		want string
+		tg           moving.Target
+		want, target string
 	}{
-		{moving.Target{Quantity: fem.QShearForce, X: 6, Side: fem.Left}, "left"},
-		{moving.Target{Quantity: fem.QShearForce, X: 6, Side: fem.Right}, "right"},
-		{moving.Target{Quantity: fem.QBendingMoment, X: 6, Side: fem.Right}, ""},
-		{moving.Target{Quantity: fem.QBendingMoment, X: 2.4, Side: fem.Left}, ""},
+		{moving.Target{Quantity: fem.QShearForce, X: 6, Side: fem.Left}, "left", "shear force just left of x = 6 m"},
+		{moving.Target{Quantity: fem.QShearForce, X: 6, Side: fem.Right}, "right", "shear force just right of x = 6 m"},
+		{moving.Target{Quantity: fem.QBendingMoment, X: 6, Side: fem.Right}, "", "bending moment at x = 6 m"},
+		{moving.Target{Quantity: fem.QBendingMoment, X: 2.4, Side: fem.Left}, "", "bending moment at x = 2.4 m"},
 	} {
 		r, err := Influence(p, InfluenceRequest{Target: c.tg, Points: 2})
 		if err != nil {
@@ -166,14 +167,15 @@ func TestInfluenceJSONSideWhereItJumps(t *testing.T) {
 		}
 		var doc struct {
 			Line struct {
-				Side string `json:"side"`
+				Side   string `json:"side"`
+				Target string `json:"target"`
 			} `json:"influence_line"`
 		}
 		if err := json.Unmarshal([]byte(b.String()), &doc); err != nil {
 			t.Fatal(err)
 		}
-		if doc.Line.Side != c.want {
-			t.Errorf("%v: side %q, want %q", c.tg, doc.Line.Side, c.want)
+		if doc.Line.Side != c.want || doc.Line.Target != c.target {
+			t.Errorf("%v: side %q, target %q; want %q, %q", c.tg, doc.Line.Side, doc.Line.Target, c.want, c.target)
 		}
 	}
 }

@@ -52,6 +52,10 @@ func (l *Line) Describe(x string) string {
 	return fmt.Sprintf("%s %s", t.Quantity, l.Side().At("x = "+x))
 }
 
+// String names l's target in words, positions in metres, with its side
+// where it jumps (Describe).
+func (l *Line) String() string { return l.Describe(trim(l.Target.X) + " m") }
+
 // Side is the side of its point that l's target is read on where its
 // quantity jumps there (see sided), 0 where the side does not matter.
 func (l *Line) Side() fem.Side {
