@@ -846,15 +846,17 @@ func (mw *movingWindow) showReadout() {
 		if mw.combined != nil {
 			what = fmt.Sprintf("combination %q with the train, %s", mw.combined.Combination, q)
 		}
-		parts = append(parts, fmt.Sprintf("%s at the station x = %s over all positions: largest %s (front at %s %s), smallest %s (front at %s %s)", what,
-			u.Format(units.Position, e.Stations[s]), u.Format(k, e.Max[mw.quantityIndex][s]), u.Format(units.Position, hi.Front), hi.Direction,
-			u.Format(k, e.Min[mw.quantityIndex][s]), u.Format(units.Position, lo.Front), lo.Direction))
+		// Where the envelope jumps at the station, each extreme says its side.
+		station := "the station x = " + u.Format(units.Position, e.Stations[s])
+		parts = append(parts, fmt.Sprintf("%s over all positions: largest %s %s (front at %s %s), smallest %s %s (front at %s %s)", what,
+			u.Format(k, e.Max[mw.quantityIndex][s]), e.MaxSide[mw.quantityIndex][s].At(station), u.Format(units.Position, hi.Front), hi.Direction,
+			u.Format(k, e.Min[mw.quantityIndex][s]), e.MinSide[mw.quantityIndex][s].At(station), u.Format(units.Position, lo.Front), lo.Direction))
 		if mw.current != nil {
 			parts = append(parts, fmt.Sprintf("with the front at %s: %s", u.Format(units.Position, mw.at.Front), u.Format(k, mw.current[s])))
 		}
 	}
 	if mw.line != nil && len(mw.worst) == 2 {
-		what := mw.line.Target.Describe(u.Format(units.Position, mw.line.Target.X))
+		what := mw.line.Describe(u.Format(units.Position, mw.line.Target.X))
 		own := "the train's"
 		if mw.combined != nil {
 			own = "the train's own (no cases, no factor)"

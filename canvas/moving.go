@@ -213,7 +213,7 @@ func (b *builder) envelopeBand(in MovingInput, bands *MovingBands) {
 		}
 		p := Point{b.sx(w.ex.X), toY(w.ex.Value)}
 		b.circle(p, 3.5, w.c, w.c, 1)
-		b.place(text1(fmt.Sprintf("%s at %s", b.format(info.Unit, w.ex.Value), b.format(units.Position, w.ex.X)), smallSize, w.c, false,
+		b.place(text1(b.format(info.Unit, w.ex.Value)+" "+w.ex.Side.At(b.format(units.Position, w.ex.X)), smallSize, w.c, false,
 			labelSpot{p.X + 7, p.Y, 0, 0.5}, labelSpot{p.X - 7, p.Y, 1, 0.5}, labelSpot{p.X, p.Y + 6 - 12*w.ay, 0.5, 1 - w.ay}))
 	}
 }
@@ -248,7 +248,7 @@ func (b *builder) influenceBand(in MovingInput, bands *MovingBands) {
 	mid, per := fitRange(min(lo.Value, 0), max(hi.Value, 0), top, bottom)
 	bands.InfluenceBaseline, bands.InfluencePerPixel = mid, per
 	toY := func(v float64) float32 { return mid - float32(v/per) }
-	what := l.Target.Describe(b.format(units.Position, l.Target.X))
+	what := l.Describe(b.format(units.Position, l.Target.X))
 	b.text(fmt.Sprintf("influence line of the %s, for %s; positive up", what, l.Target.UnitLoad(b.u.Unit(units.Force).Symbol)), 8, bands.InfluenceTop, labelSize, 0, 0, inkColour, true)
 	b.line(dimensionColour, 1, Point{b.sx(0), mid}, Point{b.sx(in.Model.Length()), mid})
 	for _, piece := range l.Polylines(600) {

@@ -57,7 +57,7 @@ func TestMovingPictureNamesTheSide(t *testing.T) {
 	for _, c := range []struct {
 		side fem.Side
 		want string
-	}{{fem.Left, "influence line of the shear force at x = 5.000 m, just left of it,"}, {fem.Right, "influence line of the shear force at x = 5.000 m,"}} {
+	}{{fem.Left, "influence line of the shear force just left of x = 5.000 m,"}, {fem.Right, "influence line of the shear force just right of x = 5.000 m,"}} {
 		tg := moving.Target{Quantity: fem.QShearForce, X: 5, Side: c.side}
 		p, err := fem.Prepare(in.Model)
 		if err != nil {
@@ -160,6 +160,40 @@ func TestMovingPictureOffTheEnds(t *testing.T) {
 		}
 		if it.Kind == Text && strings.Contains(it.Text, "e-1") {
 			t.Errorf("round-off labelled: %q", it.Text)
+		}
+	}
+}
+
+// The envelope's extremes are labelled with the side of a jump they are
+// read on, as the results table labels a case's (fem.Side.At): the
+// fixture's shear force over the middle support, where the reaction makes
+// it jump, largest just right of 5.000 m and smallest just left of it
+// (the mirror image of the two spans), the moment there with no side.
+func TestMovingPictureLabelsTheSideOfAJump(t *testing.T) {
+	in := movingFixture(t)
+	for _, c := range []struct {
+		q     int
+		wants []string
+	}{
+		{2, []string{" just right of 5.000 m", " just left of 5.000 m"}},
+		{3, nil},
+	} {
+		in.Quantity = c.q
+		s, _ := BuildMoving(in, 1200, 700)
+		var texts []string
+		for _, it := range s.Items {
+			if it.Kind == Text {
+				texts = append(texts, it.Text)
+			}
+		}
+		all := strings.Join(texts, "\n")
+		for _, want := range c.wants {
+			if !strings.Contains(all, want) {
+				t.Errorf("%s: no label %q among:\n%s", moving.EnvelopeQuantities[c.q], want, all)
+			}
+		}
+		if c.wants == nil && strings.Contains(all, "just ") {
+			t.Errorf("%s: a side where nothing jumps:\n%s", moving.EnvelopeQuantities[c.q], all)
 		}
 	}
 }

@@ -152,7 +152,7 @@ func WriteInfluenceText(w io.Writer, path string, r *MovingLoads, u units.System
 	unit, scale := influenceUnit(t, u)
 	value := func(v float64) string { return units.FormatNumber(v*scale) + " " + unit }
 	fmt.Fprintf(w, "Stave %s: %s\n", Version, path)
-	fmt.Fprintf(w, "Influence line of the %s, for %s\n", describeTarget(t, u), t.UnitLoad(u.Unit(units.Force).Symbol))
+	fmt.Fprintf(w, "Influence line of the %s, for %s\n", describeTarget(r.Line, u), t.UnitLoad(u.Unit(units.Force).Symbol))
 	fmt.Fprintln(w, "(exact solution of the member in closed form; finite elements: one solve per load position on one factorization, the load on the nearest node)")
 	tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', 0)
 	fmt.Fprintln(tw, "  load at\texact\tfinite elements")
@@ -169,14 +169,14 @@ func WriteInfluenceText(w io.Writer, path string, r *MovingLoads, u units.System
 	tw.Flush()
 	fmt.Fprintf(w, "  largest %s with the load at %s; smallest %s with the load at %s\n",
 		value(r.Largest.Value), pos(r.Largest.S), value(r.Smallest.Value), pos(r.Smallest.S))
-	writeTrainsText(w, r.Trains, r.Member.Model(), &t, u)
+	writeTrainsText(w, r.Trains, r.Member.Model(), r.Line, u)
 	fmt.Fprintln(w, "\nCaution:", fem.Caution)
 }
 
 // writeTrainsText writes what each train does on model m: how it runs,
 // its extremes of target when one is given, and over all its positions
 // the extremes of every field and reaction with the positions that govern.
-func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *moving.Target, u units.System) {
+func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *moving.Line, u units.System) {
 	pos := func(x float64) string { return u.Format(units.Position, x) }
 	tw := tabwriter.NewWriter(w, 2, 4, 2, ' ', 0)
 	for _, tr := range trains {
@@ -190,12 +190,12 @@ func writeTrainsText(w io.Writer, trains []TrainResult, m *fem.Model, target *mo
 		}
 		switch {
 		case tr.Target && target != nil:
-			kind := targetKind(*target)
+			kind := targetKind(target.Target)
 			size := max(math.Abs(tr.Largest.Value), math.Abs(tr.Smallest.Value))
-			fmt.Fprintf(w, "  %s: largest %s, smallest %s\n", describeTarget(*target, u),
+			fmt.Fprintf(w, "  %s: largest %s, smallest %s\n", describeTarget(target, u),
 				trainExtremeText(tr.Largest, kind, u, false, size), trainExtremeText(tr.Smallest, kind, u, false, size))
 		case target != nil:
-			fmt.Fprintf(w, "  %s: 0 wherever the train stands; a train's loads act across the member and move no axial force or axial displacement\n", describeTarget(*target, u))
+			fmt.Fprintf(w, "  %s: 0 wherever the train stands; a train's loads act across the member and move no axial force or axial displacement\n", describeTarget(target, u))
 		}
 		if tr.Envelope == nil {
 			continue
@@ -268,7 +268,7 @@ func trainExtremeText(e TrainExtreme, k units.Kind, u units.System, at bool, siz
 	}
 	s := value(e.Value)
 	if at {
-		s += " at x = " + u.Format(units.Position, e.X)
+		s += " " + fem.SideNamed(e.Side).At("x = "+u.Format(units.Position, e.X))
 	}
 	s += fmt.Sprintf(", front at %s %s", u.Format(units.Position, e.Front), e.Direction)
 	if e.FE != nil {
@@ -277,9 +277,10 @@ func trainExtremeText(e TrainExtreme, k units.Kind, u units.System, at bool, siz
 	return s
 }
 
-// describeTarget names the target with its position in display units.
-func describeTarget(t moving.Target, u units.System) string {
-	return t.Describe(u.Format(units.Position, t.X))
+// describeTarget names the target of l with its position in display
+// units and, where it jumps there, its side (moving.Line.Describe).
+func describeTarget(l *moving.Line, u units.System) string {
+	return l.Describe(u.Format(units.Position, l.Target.X))
 }
 
 // describeTrain says what a train is, in one line.
@@ -379,15 +380,12 @@ func WriteInfluenceJSON(w io.Writer, path string, r *MovingLoads) error {
 	j.File, j.Units, j.Caution = path, "SI base units: m, N, N·m, Pa, rad; influence ordinates per N of the unit load", fem.Caution
 	t := r.Line.Target
 	l := &j.Line
-	l.Target, l.UnitLoad, l.Method = t.String(), t.UnitLoad("N"), influenceMethod
+	l.Target, l.UnitLoad, l.Method = r.Line.String(), t.UnitLoad("N"), influenceMethod
 	if t.Reaction {
 		l.Support, l.Motion = t.Support+1, t.Motion.String()
 	} else {
 		q, x := t.Quantity, t.X
-		l.Quantity, l.X, l.Side = &q, &x, "right"
-		if t.Side == fem.Left {
-			l.Side = "left"
-		}
+		l.Quantity, l.X, l.Side = &q, &x, r.Line.Side().Name()
 	}
 	l.Samples, l.Pieces, l.Largest, l.Smallest = r.Samples, r.Line.Pieces(), r.Largest, r.Smallest
 	j.Trains = TrainsJSON(r.Member.Model(), r.Trains, true)
@@ -420,7 +418,7 @@ func MovingPicture(r *MovingLoads, i int, u units.System) (canvas.MovingInput, e
 		in.Quantity = slices.Index(moving.EnvelopeQuantities, fem.QBendingMoment)
 	}
 	if tr.Target {
-		in.Worst = []moving.Extreme{placed(tr.Largest), placed(tr.Smallest)}
+		in.Worst = []moving.Extreme{tr.Largest.Extreme(), tr.Smallest.Extreme()}
 		in.At = in.Worst[0].Placement
 	} else {
 		hi, _ := tr.Envelope.Worst(moving.EnvelopeQuantities[in.Quantity])
@@ -438,12 +436,6 @@ func MovingPicture(r *MovingLoads, i int, u units.System) (canvas.MovingInput, e
 		in.Current[s] = q.Of(&f)
 	}
 	return in, nil
-}
-
-// placed turns a reported extreme back into the package's own.
-func placed(e TrainExtreme) moving.Extreme {
-	d, _ := moving.ParseDirection(e.Direction)
-	return moving.Extreme{Value: e.Value, X: e.X, Placement: moving.Placement{Direction: d, Front: e.Front}}
 }
 
 // MovingSheet is the one-page sheet of r with train i (from 0): the
@@ -465,7 +457,7 @@ func MovingSheet(p *storage.Project, r *MovingLoads, i int, u units.System) (can
 	s.About = []string{
 		describeTrain(&tr.Train, tr.Label, L, u) + fmt.Sprintf("; %d positions in each direction, %s apart.", tr.Envelope.Positions, u.Format(units.Position, tr.Envelope.Step)),
 		fmt.Sprintf("Influence line of the %s for %s: largest %s %s with the load at %s, smallest %s %s at %s; exact solution in closed form, checked by one finite element solve per position.",
-			describeTarget(r.Line.Target, u), r.Line.Target.UnitLoad(u.Unit(units.Force).Symbol), units.FormatNumber(r.Largest.Value*scale), unit, u.Format(units.Position, r.Largest.S),
+			describeTarget(r.Line, u), r.Line.Target.UnitLoad(u.Unit(units.Force).Symbol), units.FormatNumber(r.Largest.Value*scale), unit, u.Format(units.Position, r.Largest.S),
 			units.FormatNumber(r.Smallest.Value*scale), unit, u.Format(units.Position, r.Smallest.S)),
 		"Envelope: at every station the largest and smallest value over all positions (where an axle stands on the station, on the side that gives more); each extreme below is solved again by finite elements with the train at its governing position.",
 	}
@@ -487,8 +479,9 @@ func MovingSheet(p *storage.Project, r *MovingLoads, i int, u units.System) (can
 	for _, w := range tr.Worst {
 		k := w.Quantity.Info().Unit
 		size := max(math.Abs(w.Largest.Value), math.Abs(w.Smallest.Value))
-		s.Rows = append(s.Rows, []string{w.Quantity.String(), withFE(k, w.Largest, size), pos(w.Largest.X), front(w.Largest),
-			withFE(k, w.Smallest, size), pos(w.Smallest.X), front(w.Smallest)})
+		place := func(e TrainExtreme) string { return fem.SideNamed(e.Side).Place(pos(e.X)) }
+		s.Rows = append(s.Rows, []string{w.Quantity.String(), withFE(k, w.Largest, size), place(w.Largest), front(w.Largest),
+			withFE(k, w.Smallest, size), place(w.Smallest), front(w.Smallest)})
 	}
 	for _, re := range tr.Envelope.Reactions {
 		k := units.Force

@@ -60,20 +60,24 @@ type sideRead struct {
 
 // TrainExtreme is an extreme of a quantity under a train: its value (SI),
 // where it is, the position that gives it and, when checked, the finite
-// element value with the train solved there.
+// element value with the train solved there. Side is "left" or "right"
+// where the envelope jumps at X (the shear force at a support): the value
+// is then the one just left or just right of the point, as a single
+// case's extremes say (fem.Side.Name); left out where it does not jump.
 type TrainExtreme struct {
 	Value     float64  `json:"value"`
 	X         float64  `json:"x"`
+	Side      string   `json:"side,omitempty"`
 	Direction string   `json:"direction"`
 	Front     float64  `json:"front"`
 	FE        *float64 `json:"finite_elements,omitempty"`
 }
 
-// Extreme is e as the envelope's extremes are: its value, where it is and
-// the position that gives it.
+// Extreme is e as the envelope's extremes are: its value, where it is,
+// the side of it and the position that gives it.
 func (e TrainExtreme) Extreme() moving.Extreme {
 	d, _ := moving.ParseDirection(e.Direction)
-	return moving.Extreme{Value: e.Value, X: e.X, Placement: moving.Placement{Direction: d, Front: e.Front}}
+	return moving.Extreme{Value: e.Value, X: e.X, Side: fem.SideNamed(e.Side), Placement: moving.Placement{Direction: d, Front: e.Front}}
 }
 
 // QuantityWorst are the extremes of one quantity over a train's positions.
@@ -234,6 +238,10 @@ func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem
 					} else {
 						side(false, jumpsMin, false)
 					}
+					// The side the combination's own extremes are read on,
+					// where the sum jumps.
+					c.MaxSide[q][s] = moving.JumpSide(onLeft.Max[q][s], onRight.Max[q][s], true)
+					c.MinSide[q][s] = moving.JumpSide(onLeft.Min[q][s], onRight.Min[q][s], false)
 				}
 			}
 			// The combination at points off the stations, for its peaks
@@ -308,7 +316,7 @@ func (c TrainCombination) Loaded(q fem.Quantity, x float64, upper bool) fem.Gove
 }
 
 func trainExtreme(e moving.Extreme) TrainExtreme {
-	return TrainExtreme{Value: e.Value, X: e.X, Direction: e.Placement.Direction.String(), Front: e.Placement.Front}
+	return TrainExtreme{Value: e.Value, X: e.X, Side: e.Side.Name(), Direction: e.Placement.Direction.String(), Front: e.Placement.Front}
 }
 
 // checkedWorst are the envelope's extremes of each quantity, each checked

@@ -160,6 +160,12 @@ func (r *run) scan(ls *lines, hi, lo []extreme, jumps []fem.Side, w *window) {
 		if b == a && total > 2 {
 			continue // two breaks at one front: the stretches either side hold it
 		}
+		if b == a {
+			// A run of one position: no stretch of positions to take
+			// limits over, only the train where it stands.
+			r.evaluate(ls, hi, lo, a, r.axleOn(ls, a, jumps), jumps)
+			continue
+		}
 		mid := 0.5 * (a + b)
 		full := summed < 0 || summed == resumEvery || len(r.axles) <= shortTrain || a-summedAt > ell
 		if full {
@@ -568,18 +574,23 @@ func (r *run) scanMeetings(ls *lines, hi, lo []extreme, sides []fem.Side) {
 			if meet < 2 {
 				continue
 			}
-			at := -1 // the axle on ls.at, if any
-			if len(sides) > 0 {
-				for b, other := range r.axles {
-					if math.Abs(front+other.offset-ls.at) <= r.tolerance {
-						at = b
-						break
-					}
-				}
-			}
-			r.evaluate(ls, hi, lo, front, at, sides)
+			r.evaluate(ls, hi, lo, front, r.axleOn(ls, front, sides), sides)
 		}
 	}
+}
+
+// axleOn is the axle that stands on ls.at with the front at front, where
+// the lines jump there on the sides given (see evaluate), or −1.
+func (r *run) axleOn(ls *lines, front float64, sides []fem.Side) int {
+	if len(sides) == 0 {
+		return -1
+	}
+	for a, ax := range r.axles {
+		if math.Abs(front+ax.offset-ls.at) <= r.tolerance {
+			return a
+		}
+	}
+	return -1
 }
 
 // axlesNear is the number of axles whose offset lies within the tolerance
@@ -661,6 +672,11 @@ type Envelope struct {
 	// the train along its run; MaxAt and MinAt the position giving it.
 	Max, Min     [][]float64
 	MaxAt, MinAt [][]Placement
+	// MaxSide and MinSide are, per quantity and station, the side of the
+	// station that Max and Min are read on where the envelope jumps
+	// there (the shear force at a support, the rotation at a hinge), 0
+	// where it does not.
+	MaxSide, MinSide [][]fem.Side
 	// Reactions are the extremes of every reaction across the member
 	// (transverse and rotation) of every support.
 	Reactions []ReactionEnvelope
@@ -715,6 +731,7 @@ func (e *Envelope) Combine(factor float64, base Base) *Envelope {
 	nq := len(EnvelopeQuantities)
 	out.Max, out.Min = make([][]float64, nq), make([][]float64, nq)
 	out.MaxAt, out.MinAt = make([][]Placement, nq), make([][]Placement, nq)
+	out.MaxSide, out.MinSide = make([][]fem.Side, nq), make([][]fem.Side, nq)
 	at := func(b [][]float64, q, s int) float64 {
 		if b == nil {
 			return 0
@@ -722,12 +739,13 @@ func (e *Envelope) Combine(factor float64, base Base) *Envelope {
 		return b[q][s]
 	}
 	for q := range nq {
-		hi, lo, hiAt, loAt := e.Max[q], e.Min[q], e.MaxAt[q], e.MinAt[q]
+		hi, lo, hiAt, loAt, hiSide, loSide := e.Max[q], e.Min[q], e.MaxAt[q], e.MinAt[q], e.MaxSide[q], e.MinSide[q]
 		if factor < 0 {
-			hi, lo, hiAt, loAt = lo, hi, loAt, hiAt
+			hi, lo, hiAt, loAt, hiSide, loSide = lo, hi, loAt, hiAt, loSide, hiSide
 		}
 		out.Max[q], out.Min[q] = make([]float64, len(e.Stations)), make([]float64, len(e.Stations))
 		out.MaxAt[q], out.MinAt[q] = slices.Clone(hiAt), slices.Clone(loAt)
+		out.MaxSide[q], out.MinSide[q] = slices.Clone(hiSide), slices.Clone(loSide)
 		for s := range e.Stations {
 			out.Max[q][s], out.Min[q][s] = at(base.Max, q, s)+factor*hi[s], at(base.Min, q, s)+factor*lo[s]
 		}
@@ -757,10 +775,12 @@ type Base struct {
 }
 
 // Extreme is one extreme of a quantity: its value, where it is and the
-// train's position that gives it.
+// train's position that gives it; Side is the side of X it is read on
+// where the envelope jumps there (Envelope.MaxSide), 0 where it does not.
 type Extreme struct {
 	Value, X  float64
 	Placement Placement
+	Side      fem.Side
 }
 
 // Worst is the largest and the smallest value of quantity q (one of
@@ -772,8 +792,8 @@ func (e *Envelope) Worst(q fem.Quantity) (hi, lo Extreme) {
 	}
 	scale := e.scale(k)
 	best, least := e.worstStation(k, true, scale), e.worstStation(k, false, scale)
-	return Extreme{e.Max[k][best], e.Stations[best], e.MaxAt[k][best]},
-		Extreme{e.Min[k][least], e.Stations[least], e.MinAt[k][least]}
+	return Extreme{e.Max[k][best], e.Stations[best], e.MaxAt[k][best], e.MaxSide[k][best]},
+		Extreme{e.Min[k][least], e.Stations[least], e.MinAt[k][least], e.MinSide[k][least]}
 }
 
 // scale is the largest magnitude of quantity k (an index into
@@ -828,6 +848,25 @@ func Stations(mesh fem.Mesh) []float64 {
 // bothSides are the sides of a jump an envelope takes: the larger of the two.
 var bothSides = []fem.Side{fem.Left, fem.Right}
 
+// standingSides are the sides of its jump that a line read at a station
+// on side takes for an axle standing on the station (lines.standing). At
+// a key point, read on each side by a line of its own (a support, whose
+// reaction stands on the point with the axle), the axle is on the far
+// side of the cut from the side read, as Influence.Worst takes it: the
+// limit with it beyond the point is another position, which the scan
+// takes where the run has it, and a run that ends with the axle on the
+// point has not. Elsewhere the field at the station jumps under the axle
+// itself, and both its sides are the field there.
+func standingSides(key bool, side fem.Side) []fem.Side {
+	switch {
+	case !key:
+		return bothSides
+	case side == fem.Left:
+		return bothSides[1:]
+	}
+	return bothSides[:1]
+}
+
 // parallelStations is the number of stations from which Envelope works on
 // two goroutines.
 const parallelStations = 2048
@@ -850,13 +889,27 @@ func (in *Influence) Envelope(t *Train, mesh fem.Mesh, stations []float64) (*Env
 	e := in.envelopeAt(s, t, runs, stations, 0)
 	if own {
 		if extra := in.peaks(s, e); len(extra) > 0 {
-			stations = append(slices.Clone(stations), extra...)
-			slices.Sort(stations)
-			e = in.envelopeAt(s, t, runs, slices.Compact(stations), 0)
+			e = in.envelopeAt(s, t, runs, merged(stations, extra, keyTolerance*in.model.Length()), 0)
 		}
 	}
 	in.envelopeReactions(s, e)
 	return e, nil
+}
+
+// merged is stations, in order, with the points of extra added but for
+// those within tol of a station or of a point added before them: one
+// point, whose station is kept (a peak under an axle at 9.2 − 3.2 =
+// 5.999999999999999 m is the station of the support at 6 m).
+func merged(stations, extra []float64, tol float64) []float64 {
+	out := slices.Clone(stations)
+	for _, x := range extra {
+		i, _ := slices.BinarySearch(out, x)
+		if i < len(out) && out[i]-x <= tol || i > 0 && x-out[i-1] <= tol {
+			continue
+		}
+		out = slices.Insert(out, i, x)
+	}
+	return out
 }
 
 // EnvelopeSide is train t's envelope at the stations (which it needs),
@@ -891,9 +944,11 @@ func (in *Influence) envelopeAt(s *sweeps, t *Train, runs []run, stations []floa
 	nq := len(EnvelopeQuantities)
 	e.Max, e.Min = make([][]float64, nq), make([][]float64, nq)
 	e.MaxAt, e.MinAt = make([][]Placement, nq), make([][]Placement, nq)
+	e.MaxSide, e.MinSide = make([][]fem.Side, nq), make([][]fem.Side, nq)
 	for q := range nq {
 		e.Max[q], e.Min[q] = make([]float64, len(stations)), make([]float64, len(stations))
 		e.MaxAt[q], e.MinAt[q] = make([]Placement, len(stations)), make([]Placement, len(stations))
+		e.MaxSide[q], e.MinSide[q] = make([]fem.Side, len(stations)), make([]fem.Side, len(stations))
 	}
 	n := len(stations)
 	if n < parallelStations {
@@ -964,13 +1019,13 @@ func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (
 	span := e.Stations[n-1] - e.Stations[0]
 	tol := keyTolerance * span
 	sign := 1.0
-	values, at := e.Max[q], e.MaxAt[q]
+	values, at, sides := e.Max[q], e.MaxAt[q], e.MaxSide[q]
 	if !upper {
-		sign, values, at = -1, e.Min[q], e.MinAt[q]
+		sign, values, at, sides = -1, e.Min[q], e.MinAt[q], e.MinSide[q]
 	}
 	scale := e.scale(q)
 	b := e.worstStation(q, upper, scale)
-	x, pos, v := e.Stations[b], at[b], values[b]
+	x, pos, v, side := e.Stations[b], at[b], values[b], sides[b]
 	// try probes xs and moves to the worst of them where that is worse
 	// than where Peak stands, reporting whether the probe answered and
 	// whether the field is flat to round-off over xs and where Peak stood.
@@ -979,9 +1034,9 @@ func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (
 		if p == nil {
 			return false, false, false
 		}
-		pv, pat := p.Max[q], p.MaxAt[q]
+		pv, pat, psides := p.Max[q], p.MaxAt[q], p.MaxSide[q]
 		if !upper {
-			pv, pat = p.Min[q], p.MinAt[q]
+			pv, pat, psides = p.Min[q], p.MinAt[q], p.MinSide[q]
 		}
 		best := -1
 		flat = true
@@ -992,7 +1047,7 @@ func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (
 			}
 		}
 		if best >= 0 {
-			x, pos, v = xs[best], pat[best], pv[best]
+			x, pos, v, side = xs[best], pat[best], pv[best], psides[best]
 		}
 		return best >= 0, true, flat
 	}
@@ -1041,7 +1096,7 @@ func (e *Envelope) Peak(q int, upper bool, probe func(xs []float64) *Envelope) (
 		}
 		lo, hi = max(lo, x-d), min(hi, x+d)
 	}
-	return Extreme{v, x, pos}, math.Abs(x-e.Stations[b]) > tol
+	return Extreme{v, x, pos, side}, math.Abs(x-e.Stations[b]) > tol
 }
 
 // Peak closes in on a peak refineProbes points at a time, until the
@@ -1179,7 +1234,9 @@ func (in *Influence) envelopeStations(s *sweeps, e *Envelope, from, to int) {
 	for st := from; st < to; st++ {
 		x := e.Stations[st]
 		sides := []fem.Side{fem.Right}
-		if k := s.keyIndex(x); math.Abs(x-s.keys[k]) <= keyTolerance*s.length {
+		k := s.keyIndex(x)
+		key := math.Abs(x-s.keys[k]) <= keyTolerance*s.length
+		if key {
 			x = s.keys[k]
 			switch {
 			case k == 0:
@@ -1191,28 +1248,63 @@ func (in *Influence) envelopeStations(s *sweeps, e *Envelope, from, to int) {
 				sides = []fem.Side{fem.Left, fem.Right}
 			}
 		}
-		first := true
-		for _, side := range sides {
+		// The extremes read on each side, by quantity: [side][q].
+		var his, los [2][len(envelopeRows) + 1]extreme // the rows, then the bending stress
+		for k, side := range sides {
 			in.stationReaders(s, x, side, rs[:])
-			scanRuns(s, &ls, &w, rs[:], runs, hi[:], lo[:], bothSides)
+			scanRuns(s, &ls, &w, rs[:], runs, hi[:], lo[:], standingSides(key, side))
 			seg := m.Segments[segmentAt(m, x, side)].Section
 			stress := seg.FibreDistance / seg.SecondMoment
 			for q := range EnvelopeQuantities {
-				h, l := hi[min(q, 3)], lo[min(q, 3)]
+				his[k][q], los[k][q] = hi[min(q, 3)], lo[min(q, 3)]
 				if q == 4 {
-					h.value, l.value = h.value*stress, l.value*stress
-				}
-				if first || fem.Beyond(h.value, e.Max[q][st]) {
-					e.Max[q][st], e.MaxAt[q][st] = h.value, h.at
-				}
-				if first || fem.Beyond(e.Min[q][st], l.value) {
-					e.Min[q][st], e.MinAt[q][st] = l.value, l.at
+					his[k][q].value, los[k][q].value = his[k][q].value*stress, los[k][q].value*stress
 				}
 			}
-			first = false
+		}
+		for q := range EnvelopeQuantities {
+			h, l := his[0][q], los[0][q]
+			var hs, ls fem.Side
+			if len(sides) == 2 {
+				h, hs = sideOf(his[0][q], his[1][q], true)
+				l, ls = sideOf(los[0][q], los[1][q], false)
+			}
+			e.Max[q][st], e.MaxAt[q][st], e.MaxSide[q][st] = h.value, h.at, hs
+			e.Min[q][st], e.MinAt[q][st], e.MinSide[q][st] = l.value, l.at, ls
 		}
 	}
 }
+
+// sideOf is the larger (upper) or smaller of left and right, a station's
+// extremes read just left and just right of it, and the side it is read
+// on (JumpSide): the left one where the envelope does not jump.
+func sideOf(left, right extreme, upper bool) (extreme, fem.Side) {
+	side := JumpSide(left.value, right.value, upper)
+	if side == fem.Right {
+		return right, side
+	}
+	return left, side
+}
+
+// JumpSide is the side of a point that an envelope's largest (upper) or
+// smallest value there is read on, left and right being its values just
+// left and just right of the point: the side of the larger (smaller),
+// or 0 where they differ by no more than round-off of their size (the
+// envelope does not jump there).
+func JumpSide(left, right float64, upper bool) fem.Side {
+	switch {
+	case math.Abs(left-right) <= jumpRoundOff*max(math.Abs(left), math.Abs(right)):
+		return 0
+	case fem.Beyond(signed(right, upper), signed(left, upper)):
+		return fem.Right
+	}
+	return fem.Left
+}
+
+// jumpRoundOff is the share of its size by which an envelope's extremes
+// either side of a station may differ without a jump between them: the
+// two sides are read through different stretches' coefficients.
+const jumpRoundOff = 1e-9
 
 // Worst is the largest and the smallest value of target tg under train t
 // over every position of its front along its run, with the positions
@@ -1255,7 +1347,7 @@ func (in *Influence) Worst(t *Train, mesh fem.Mesh, tg Target) (hi, lo Extreme, 
 	if tg.Reaction {
 		x = in.model.Supports[tg.Support].X
 	}
-	return Extreme{h[0].value, x, h[0].at}, Extreme{l[0].value, x, l[0].at}, nil
+	return Extreme{Value: h[0].value, X: x, Placement: h[0].at}, Extreme{Value: l[0].value, X: x, Placement: l[0].at}, nil
 }
 
 // envelopeReactions finds the range of every reaction across the member.

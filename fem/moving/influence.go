@@ -39,18 +39,33 @@ func (t Target) String() string {
 	return fmt.Sprintf("%s at x = %s m%s", t.Quantity, trim(t.X), side)
 }
 
-// Describe names the target in words for a page, its position written as
-// x (with its unit): "bending moment at x = 2.5 m", ", just left of it"
-// where it is read on the left, or the reaction of a support.
-func (t Target) Describe(x string) string {
+// Describe names the line's target in words for a page, its position
+// written as x (with its unit): "bending moment at x = 2.5 m", or where
+// the quantity jumps at the point (Line.sided) the side it is read on, as
+// the static outputs say it (fem.Side.At): "shear force just left of
+// x = 6 m"; or the reaction of a support.
+func (l *Line) Describe(x string) string {
+	t := l.Target
 	if t.Reaction {
-		return fmt.Sprintf("%s reaction of support %d", t.Motion, t.Support+1)
+		return t.String()
 	}
-	side := ""
-	if t.Side == fem.Left {
-		side = ", just left of it"
+	return fmt.Sprintf("%s %s", t.Quantity, l.Side().At("x = "+x))
+}
+
+// String names l's target in words, positions in metres, with its side
+// where it jumps (Describe).
+func (l *Line) String() string { return l.Describe(trim(l.Target.X) + " m") }
+
+// Side is the side of its point that l's target is read on where its
+// quantity jumps there (see sided), 0 where the side does not matter.
+func (l *Line) Side() fem.Side {
+	switch {
+	case !l.sided:
+		return 0
+	case l.Target.Side == 0:
+		return fem.Right // as read (Target.Side)
 	}
-	return fmt.Sprintf("%s at x = %s%s", t.Quantity, x, side)
+	return l.Target.Side
 }
 
 // inner is t read on the member: at either end only one side of the point
@@ -169,6 +184,8 @@ func (in *Influence) sweepsFor(t Target) (*sweeps, error) {
 // member, piecewise cubic.
 type Line struct {
 	Target Target
+	// sided says the side Target is read on matters (see sided).
+	sided bool
 	lines
 }
 
@@ -185,7 +202,49 @@ func (in *Influence) Line(t Target) (*Line, error) {
 	}
 	ln := &Line{Target: t}
 	ln.fill(s, []reader{r})
+	ln.sided = in.sided(s, ln)
 	return ln, nil
+}
+
+// sided reports whether the side l's target is read on matters: its
+// quantity jumps at its point inside the member, under the unit load
+// standing there (the shear force: Line.Jump) or for loads anywhere (the
+// shear force at a support, the rotation at a hinge, the stress where
+// the section changes), the line read on the other side differing from
+// l beyond round-off at a third and two thirds of every stretch. An end
+// of the member has one side only; a reaction none.
+func (in *Influence) sided(s *sweeps, l *Line) bool {
+	t := l.Target
+	L := in.model.Length()
+	if t.Reaction || t.X <= keyTolerance*L || t.X >= L-keyTolerance*L {
+		return false
+	}
+	if l.Jump() != 0 {
+		return true
+	}
+	if k := s.keyIndex(t.X); math.Abs(t.X-s.keys[k]) > keyTolerance*s.length {
+		return false // off the key points nothing jumps but under the load
+	}
+	other := t
+	other.Side = fem.Left
+	if t.Side == fem.Left {
+		other.Side = fem.Right
+	}
+	r, err := in.reader(s, other)
+	if err != nil {
+		return false
+	}
+	var o lines
+	o.fill(s, []reader{r})
+	size, apart := 0.0, 0.0
+	for i := 1; i < len(s.keys); i++ {
+		for _, f := range []float64{1.0 / 3, 2.0 / 3} {
+			p := s.keys[i-1] + f*(s.keys[i]-s.keys[i-1])
+			a, b := l.value(0, p, fem.Right), o.value(0, p, fem.Right)
+			size, apart = max(size, math.Abs(a), math.Abs(b)), max(apart, math.Abs(a-b))
+		}
+	}
+	return apart > jumpRoundOff*size
 }
 
 // jump is how much the line of t rises as the unit load crosses t's own

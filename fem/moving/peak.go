@@ -31,20 +31,17 @@ const fitNodes = 6
 // through them (which it is, to round-off), and takes its largest and
 // smallest value at the ends and at the roots of its derivative. The
 // points it returns are stations to add: the envelope there is exact.
+// Peaks within peakTie of the largest (smallest) are all returned, so that
+// of equal peaks (the two spans of a symmetric member) the envelope, exact
+// at each, names the first along the member (Envelope.Worst), not the one
+// the fit's round-off puts ahead.
 func (in *Influence) axlePeaks(s *sweeps, e *Envelope) []float64 {
-	type best struct {
+	type peak struct {
+		kind     int // shear, moment, stress
 		value, x float64
-		set      bool
 	}
-	var found [3][2]best // shear, moment, stress; largest and smallest
-	take := func(k int, v, x float64) {
-		if b := &found[k][0]; !b.set || v > b.value {
-			*b = best{v, x, true}
-		}
-		if b := &found[k][1]; !b.set || v < b.value {
-			*b = best{v, x, true}
-		}
-	}
+	var peaks []peak
+	take := func(k int, v, x float64) { peaks = append(peaks, peak{k, v, x}) }
 	first, last := e.Stations[0], e.Stations[len(e.Stations)-1]
 	tol := keyTolerance * s.length
 	var nodes [fitNodes]float64
@@ -114,16 +111,28 @@ func (in *Influence) axlePeaks(s *sweeps, e *Envelope) []float64 {
 			}
 		}
 	}
+	// The largest and smallest of each kind, and their size.
+	var hi, lo [3]float64
+	for k := range hi {
+		hi[k], lo[k] = math.Inf(-1), math.Inf(1)
+	}
+	for _, p := range peaks {
+		hi[p.kind], lo[p.kind] = max(hi[p.kind], p.value), min(lo[p.kind], p.value)
+	}
 	var out []float64
-	for k := range found {
-		for _, b := range found[k] {
-			if b.set {
-				out = append(out, min(max(b.x, first), last))
-			}
+	for _, p := range peaks {
+		tie := peakTie * max(math.Abs(hi[p.kind]), math.Abs(lo[p.kind]))
+		if p.value >= hi[p.kind]-tie || p.value <= lo[p.kind]+tie {
+			out = append(out, min(max(p.x, first), last))
 		}
 	}
 	return out
 }
+
+// peakTie is the share of a quantity's size within which axlePeaks takes
+// peaks for equal: the round-off of its fits, far above a tie of exact
+// values (fem.Beyond), which the envelope then settles at each.
+const peakTie = 1e-9
 
 // fit is the polynomial of degree len(nodes) − 1 through the values at
 // the nodes, its coefficients constant first: Newton's divided
