@@ -2,7 +2,6 @@ package main
 
 import (
 	"context"
-	"flag"
 	"fmt"
 	"io"
 	"os"
@@ -36,7 +35,7 @@ func checkCommand(args []string, stdout, stderr io.Writer) error {
 	asCSV := fs.Bool("csv", false, "print the lines as CSV")
 	workers := fs.Int("workers", 0, "members analysed at once, at most 4 per core (default: one per core)")
 	system := fs.String("units", "", "unit system the text names the checks' places in: SI or US (default: each file's display units; JSON and CSV lengths stay in m)")
-	names, err := parseFiles(fs, args, stdout)
+	names, err := parseOperands(fs, args, stdout, "FILE... | DIR")
 	if err != nil {
 		return err
 	}
@@ -100,22 +99,6 @@ func checkCommand(args []string, stdout, stderr io.Writer) error {
 		return inDocument(statusError{3, fmt.Sprintf("%d of %d members failed a check: their lines say which", sum.Failed, sum.Members)}, *asJSON)
 	}
 	return nil
-}
-
-// parseFiles parses flags that may come before, between or after file
-// names; with --help it prints the flags and returns helpShown.
-func parseFiles(fs *flag.FlagSet, args []string, stdout io.Writer) ([]string, error) {
-	var files []string
-	for {
-		if err := parseFlags(fs, args, stdout, "FILE... | DIR"); err != nil {
-			return nil, err
-		}
-		if fs.NArg() == 0 {
-			return files, nil
-		}
-		files = append(files, fs.Arg(0))
-		args = fs.Args()[1:]
-	}
 }
 
 // isTerminal reports whether w is a terminal (a character device).

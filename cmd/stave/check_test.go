@@ -342,3 +342,48 @@ func TestCheckUnits(t *testing.T) {
 		t.Errorf("--units imperial: exit %d, stderr %q; want 2, naming the unknown system", code, stderr)
 	}
 }
+
+// After "--" every argument is a file, also one that begins with "-" and
+// comes after another file (the flag package's convention: "--" ends the
+// flags); before it, flags may still follow the files.
+func TestFilesAfterDoubleDash(t *testing.T) {
+	dir := t.TempDir()
+	demo, err := os.ReadFile("../../testdata/demo.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, name := range []string{"-a.json", "-b.json"} {
+		if err := os.WriteFile(filepath.Join(dir, name), demo, 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	t.Chdir(dir)
+	for _, c := range []struct {
+		name    string
+		args    []string
+		code    int
+		members int // rows of the batch's CSV; 0 for solve
+	}{
+		{"check: two files after --", []string{"check", "--csv", "--", "-a.json", "-b.json"}, 0, 2},
+		// After -- even --json names a file, which does not exist: refused.
+		{"check: after --, --json is a file", []string{"check", "--csv", "--", "-a.json", "--json"}, 1, 2},
+		{"solve: one file after --", []string{"solve", "--", "-a.json"}, 0, 0},
+		{"solve: two files after -- are one too many", []string{"solve", "--", "-a.json", "-b.json"}, 2, 0},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			code, out, stderr := runStave(t, c.args...)
+			if code != c.code {
+				t.Fatalf("exit %d, want %d; stderr %s", code, c.code, stderr)
+			}
+			if c.members > 0 {
+				// The caution's comment line and the header come first.
+				if got := strings.Count(out, "\n") - 2; got != c.members {
+					t.Errorf("%d members, want %d:\n%s", got, c.members, out)
+				}
+			}
+			if c.code == 2 && strings.Contains(stderr, "flag provided but not defined") {
+				t.Errorf("a file after -- read as a flag: %s", stderr)
+			}
+		})
+	}
+}

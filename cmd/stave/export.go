@@ -11,6 +11,7 @@ import (
 
 	"stave/canvas"
 	"stave/canvas/report"
+	"stave/fem"
 	"stave/storage"
 )
 
@@ -75,6 +76,9 @@ func exportCommand(args []string, stdout io.Writer) error {
 	}
 	if set(fs, "elements") {
 		p.Model.Mesh.Elements, p.Model.Mesh.MaxElementLength = *elements, 0
+		if err := meshFits(&p.Model); err != nil {
+			return usageError{fmt.Sprintf("--elements %d: %s: %v", *elements, path, err)}
+		}
 	}
 	var src report.Source
 	n, err := writeExport(*out, func(w io.Writer) error {
@@ -100,6 +104,22 @@ func exportCommand(args []string, stdout io.Writer) error {
 		return modelError{fmt.Errorf("%s: the model cannot be solved, so %s shows the problem instead of results: %w", path, *out, a.Err)}
 	}
 	return failures(path, src.Findings)
+}
+
+// meshFits is the problem with m's element count (too many to fit in
+// memory), nil when it has none. The model loaded without problems, so only
+// a mesh set from the command line can have one.
+func meshFits(m *fem.Model) error {
+	var ve *fem.ValidationError
+	if !errors.As(m.Validate(), &ve) {
+		return nil
+	}
+	for _, p := range ve.Problems {
+		if p.Item.Kind == fem.MeshItem && p.Property == fem.ElementsProperty {
+			return errors.New(p.Message)
+		}
+	}
+	return nil
 }
 
 // set reports whether the flag name was given on the command line.

@@ -49,3 +49,25 @@ func TestExportElementsAndMultiples(t *testing.T) {
 		}
 	}
 }
+
+// --elements asking for more elements than fit in memory is misuse of the
+// flag (exit 2, as converge --max and export --points too large are,
+// README "Exit status"), told before anything is written: the file's own
+// model is fine. It was exit 1, a model refused, with a PNG of "the
+// problem" written and a CSV's message "cannot save ...: writing failed".
+func TestExportElementsTooManyIsMisuse(t *testing.T) {
+	dir := t.TempDir()
+	for _, out := range []string{"fields.csv", "beam.png"} {
+		path := filepath.Join(dir, out)
+		code, _, stderr := runStave(t, "export", "../../testdata/demo.json", "--out", path, "--elements", "100000000")
+		if code != 2 {
+			t.Errorf("%s: exit %d, want 2: %s", out, code, stderr)
+		}
+		if !strings.Contains(stderr, "--elements 100000000") || !strings.Contains(stderr, "memory") || strings.Contains(stderr, "writing failed") {
+			t.Errorf("%s: the message does not name the flag and why: %s", out, stderr)
+		}
+		if _, err := os.Stat(path); err == nil {
+			t.Errorf("%s written for a mesh that cannot be solved", out)
+		}
+	}
+}

@@ -130,19 +130,46 @@ func parseFlags(fs *flag.FlagSet, args []string, stdout io.Writer, operands stri
 // name. With --help it prints the command's flags to stdout and returns
 // helpShown.
 func parseOneFile(fs *flag.FlagSet, args []string, stdout io.Writer) (string, error) {
-	var files []string
-	for {
-		if err := parseFlags(fs, args, stdout, "FILE"); err != nil {
-			return "", err
-		}
-		if fs.NArg() == 0 {
-			break
-		}
-		files = append(files, fs.Arg(0))
-		args = fs.Args()[1:]
+	files, err := parseOperands(fs, args, stdout, "FILE")
+	if err != nil {
+		return "", err
 	}
 	if len(files) != 1 {
 		return "", usageError{fmt.Sprintf("%s needs exactly one model file, got %d", fs.Name(), len(files))}
 	}
 	return files[0], nil
+}
+
+// parseOperands parses flags that may come before, between or after the
+// operands (file names) and returns the operands in order. "--" ends the
+// flags: every argument after it is an operand, one beginning with "-"
+// too. With --help it prints the command's usage, operands as its
+// operands, and returns helpShown.
+func parseOperands(fs *flag.FlagSet, args []string, stdout io.Writer, operands string) ([]string, error) {
+	var files []string
+	for {
+		if err := parseFlags(fs, args, stdout, operands); err != nil {
+			return nil, err
+		}
+		rest := fs.Args()
+		if endedByDoubleDash(fs, args, len(args)-len(rest)) {
+			return append(files, rest...), nil
+		}
+		if len(rest) == 0 {
+			return files, nil
+		}
+		files = append(files, rest[0])
+		args = rest[1:]
+	}
+}
+
+// endedByDoubleDash reports whether fs, parsing args, stopped at a "--"
+// that ends the flags, the last of the parsed arguments: the flags before
+// it parse on their own, so it is no flag's value ("--units --").
+func endedByDoubleDash(fs *flag.FlagSet, args []string, parsed int) bool {
+	if parsed == 0 || args[parsed-1] != "--" {
+		return false
+	}
+	// Parsing the same flags again sets the same values.
+	return fs.Parse(args[:parsed-1]) == nil && fs.NArg() == 0
 }
