@@ -10,6 +10,7 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
+	"stave/canvas/report"
 	"stave/fem"
 	"stave/fem/units"
 )
@@ -147,5 +148,34 @@ func TestReadoutTable(t *testing.T) {
 		if !strings.Contains(summary, want) {
 			t.Errorf("the checks list's summary lacks %q:\n%s", want, summary)
 		}
+	}
+}
+
+// The Checks panel's first line states the balance as the text output
+// does, the largest residual relative to the loads (fem EquilibriumScales),
+// where it read "out of balance 9.095e-16 kN, 3.638e-15 kN·m" on the demo:
+// round-off printed in kilonewtons as if it were a result.
+func TestChecksHeaderStatesTheBalanceAsTheTextDoes(t *testing.T) {
+	w, q := newTestWindow(t, demoProject(t))
+	solved(t, w, q)
+	var b strings.Builder
+	report.WriteResultsText(&b, report.Source{Project: &w.project, Analysis: &w.result.Analysis, Units: w.units})
+	const lead = "largest residual relative to the loads:"
+	var relative string
+	for _, line := range strings.Split(b.String(), "\n") {
+		if _, after, ok := strings.Cut(line, lead); ok {
+			f := strings.Fields(after)
+			relative = f[len(f)-1] // the finite element one, last
+		}
+	}
+	if relative == "" {
+		t.Fatalf("the text output has no line %q:\n%s", lead, b.String())
+	}
+	first, _, _ := strings.Cut(w.ui.checks.summaryText(), "\n")
+	if want := "residual " + relative + " of the loads"; !strings.Contains(first, want) {
+		t.Errorf("the checks list's first line reads %q, want it to say %q", first, want)
+	}
+	if strings.Contains(first, " kN") {
+		t.Errorf("the checks list's first line gives the residual in kN: %q", first)
 	}
 }

@@ -309,7 +309,7 @@ func (l *checksList) summaryText() string {
 	if a == nil {
 		return "solving…"
 	}
-	text := a.MeshText(w.units)
+	text := a.MeshText()
 	if h := a.HeadlineText(w.units); h != "" {
 		text += "\n\n" + h
 	}

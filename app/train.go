@@ -11,6 +11,7 @@ import (
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/driver/desktop"
 	"fyne.io/fyne/v2/layout"
+	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 
 	"stave/canvas"
@@ -264,7 +265,9 @@ func (mw *movingWindow) build() {
 	// its place under two rows while they took three, and lay under them.
 	below := container.NewVBox(mw.readout, hint)
 	center := container.New(layout.NewBorderLayout(top, below, nil, nil), mw.pic, below, top)
-	mw.formScroll = container.NewVScroll(left)
+	// fyne draws the scroll bar over the content's right edge, where the
+	// fields, Delete and the axles' × ran under it and looked cut off.
+	mw.formScroll = container.NewVScroll(container.New(layout.NewCustomPaddedLayout(0, 0, 0, theme.ScrollBarSize()), left))
 	followFocus(mw.formScroll)
 	split := container.NewHSplit(mw.formScroll, center)
 	split.SetOffset(0.27)

@@ -472,3 +472,29 @@ func TestMovingWindowDropsTheEnvelopeOfADeletedTrain(t *testing.T) {
 		t.Errorf("status %q, want it to say there is no train yet", got)
 	}
 }
+
+// Every field, label and button of the train form stays clear of the
+// form's scroll bar, which fyne draws over the content's right edge: at
+// 1280 × 720 the fields, the Delete button and the axles' × ran to the
+// edge of the split, under the bar, and looked cut off.
+func TestTrainFormClearsItsScrollBar(t *testing.T) {
+	_, _, mw := runwayWindow(t)
+	d := fyne.CurrentApp().Driver()
+	s := mw.formScroll
+	edge := d.AbsolutePositionForObject(s).X + s.Size().Width - theme.ScrollBarSize()
+	n := 0
+	for _, o := range test.LaidOutObjects(s.Content) {
+		switch o.(type) {
+		case fyne.Focusable, *widget.Label:
+		default:
+			continue
+		}
+		n++
+		if right := d.AbsolutePositionForObject(o).X + o.Size().Width; right > edge {
+			t.Errorf("%s ends at x = %.0f px, under the scroll bar, which starts at %.0f", nameOf(o), right, edge)
+		}
+	}
+	if n == 0 {
+		t.Error("the form has no widget")
+	}
+}

@@ -499,7 +499,7 @@ func (sh *sheet) resultsTable(sum fem.Summary, mesh string, u units.System) {
 		reactions += " of the supports and the ground"
 	}
 	sh.para(fmt.Sprintf("Equilibrium residual (%s): %s, %s, %s (relative %s; FE %s)", reactions, f(units.Force, eq.Residual.Axial),
-		f(units.Force, eq.Residual.Transverse), f(units.Moment, eq.Residual.Moment), units.FormatG("%.1e", eq.Relative), units.FormatG("%.1e", sum.FEEquilibrium.Relative)), inkColour)
+		f(units.Force, eq.Residual.Transverse), f(units.Moment, eq.Residual.Moment), eq.RelativeWords(), sum.FEEquilibrium.RelativeWords()), inkColour)
 	sh.para("Mesh: "+sum.Mesh.Words()+". "+mesh, inkColour)
 	if e := sum.ExactError; e != nil {
 		sh.para(fmt.Sprintf("FE against exact: %s %s of the largest stress, %s %s, %s %s",

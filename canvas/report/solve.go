@@ -746,10 +746,10 @@ func writeEquilibriumText(w io.Writer, tw *tabwriter.Writer, sum fem.Summary, u 
 	}
 	tw.Flush()
 	if sum.Exact {
-		fmt.Fprintf(w, "  largest residual relative to the loads: exact %s, FE %s\n", units.FormatG("%.1e", sum.Equilibrium.Relative), units.FormatG("%.1e", sum.FEEquilibrium.Relative))
+		fmt.Fprintf(w, "  largest residual relative to the loads: exact %s, FE %s\n", sum.Equilibrium.RelativeWords(), sum.FEEquilibrium.RelativeWords())
 		return
 	}
-	fmt.Fprintf(w, "  largest residual relative to the loads: %s\n", units.FormatG("%.1e", sum.FEEquilibrium.Relative))
+	fmt.Fprintf(w, "  largest residual relative to the loads: %s\n", sum.FEEquilibrium.RelativeWords())
 }
 
 // WriteErrorText writes the three error measures of the finite element

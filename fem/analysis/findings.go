@@ -603,18 +603,17 @@ func Flagged(fs []Finding) []string {
 	return out
 }
 
-// MeshText is one line on the mesh and the balance of the solution, in
-// units u, then who chose the mesh and the accuracy it reaches; the
-// problem when there is no solution.
-func (a *Analysis) MeshText(u units.System) string {
+// MeshText is one line on the mesh and the balance of the solution (its
+// largest residual relative to the loads, as the text output and the
+// sheet give it), then who chose the mesh and the accuracy it reaches;
+// the problem when there is no solution.
+func (a *Analysis) MeshText() string {
 	if a.Solution == nil {
 		return "no results: " + a.Problem()
 	}
 	s := a.Solution
-	e := s.Equilibrium
-	res := math.Max(math.Abs(e.Residual[0]), math.Abs(e.Residual[1]))
-	text := fmt.Sprintf("%s, %s · out of balance %s, %s · condition ≈ %s",
-		units.Count(len(s.Mesh.Elements), "element"), units.Count(len(s.Mesh.X), "node"), u.Format(units.Force, res), u.Format(units.Moment, math.Abs(e.Residual[2])), units.FormatG("%.2g", s.Condition))
+	text := fmt.Sprintf("%s, %s · residual %s of the loads · condition ≈ %s",
+		units.Count(len(s.Mesh.Elements), "element"), units.Count(len(s.Mesh.X), "node"), s.FEBalance(a.Exact).RelativeWords(), units.FormatG("%.2g", s.Condition))
 	if a.summary != nil {
 		text += "\n" + MeshChoice(*a.summary)
 	}
