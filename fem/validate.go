@@ -186,7 +186,9 @@ func (v *validator) axialOnly(m *Model) {
 const axialOnlyWhy = "the member is declared to carry axial force only (a tie or strut)"
 
 // axialOnlyLoads refuses point and distributed loads that would bend an
-// axial-only member.
+// axial-only member: a transverse force, a moment, a transverse line load
+// not zero everywhere. A zero transverse part carries nothing across, as
+// for a member found axial-only without the declaration (bendsMember).
 func (v *validator) axialOnlyLoads(points []PointLoad, lines []DistributedLoad) {
 	const why = axialOnlyWhy
 	for i, p := range points {
@@ -199,7 +201,7 @@ func (v *validator) axialOnlyLoads(points []PointLoad, lines []DistributedLoad) 
 		}
 	}
 	for i, d := range lines {
-		if d.Direction == Transverse {
+		if d.Direction == Transverse && slices.ContainsFunc(d.Points, func(p LoadPoint) bool { return p.Intensity != 0 }) {
 			v.add(Place{Item: Item{Kind: DistributedLoadItem, Index: i, Case: v.loadCase}, Property: DirectionProperty}, fmt.Sprintf("distributed load %d acts across the member, but %s: make it axial, or let the member bend", i+1, why))
 		}
 	}

@@ -455,3 +455,67 @@ func TestValidateShearDeformationOneProblem(t *testing.T) {
 		})
 	}
 }
+
+// A member declared axial-only (a tie or strut) is refused only what would
+// bend it: a transverse force, a moment or a transverse line load that is
+// not zero. A load whose transverse part is zero carries nothing across, as
+// the members found axial-only without the declaration take it
+// (Loads.bendsMember), whether a point load or a line load, in the model or
+// in a load case. The accepted ones solve to the tie's axial force, the end
+// load (statics).
+func TestValidateAxialOnlyRefusesWhatBendsIt(t *testing.T) {
+	tie := func() *Model {
+		return &Model{
+			Segments:   []Segment{testSegment(0, 3)},
+			Supports:   []Support{{X: 0, Kind: AxialOnly}},
+			PointLoads: []PointLoad{{X: 3, Axial: 1e3}},
+			AxialOnly:  true,
+		}
+	}
+	inCase := func(m *Model) {
+		m.Cases = []LoadCase{{Name: "pull", PointLoads: m.PointLoads, DistributedLoad: m.DistributedLoad}}
+		m.PointLoads, m.DistributedLoad = nil, nil
+	}
+	line := func(q0, q1 float64) func(m *Model) {
+		return func(m *Model) {
+			m.DistributedLoad = []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, q0}, {3, q1}}}}
+		}
+	}
+	tests := []struct {
+		name   string
+		edits  []func(m *Model)
+		refuse string // "" for accepted
+	}{
+		{"point load of zero transverse force", []func(m *Model){func(m *Model) { m.PointLoads[0].Transverse = 0 }}, ""},
+		{"transverse line load of zero intensity", []func(m *Model){line(0, 0)}, ""},
+		{"transverse line load of zero intensity in a case", []func(m *Model){line(0, 0), inCase}, ""},
+		{"transverse point load", []func(m *Model){func(m *Model) { m.PointLoads[0].Transverse = -1 }}, "point load 1 pushes across the member"},
+		{"transverse line load zero at one end", []func(m *Model){line(0, -1)}, "distributed load 1 acts across the member"},
+		{"transverse line load in a case", []func(m *Model){line(-1, -1), inCase}, `load case "pull": distributed load 1 acts across the member`},
+	}
+	for _, c := range tests {
+		t.Run(c.name, func(t *testing.T) {
+			m := tie()
+			for _, edit := range c.edits {
+				edit(m)
+			}
+			err := m.Validate()
+			if c.refuse != "" {
+				if err == nil || !strings.Contains(err.Error(), c.refuse+", but the member is declared to carry axial force only") {
+					t.Errorf("got %v, want a refusal saying %q", err, c.refuse)
+				}
+				return
+			}
+			if err != nil {
+				t.Fatalf("refused: %v", err)
+			}
+			if len(m.Cases) > 0 {
+				return
+			}
+			s := mustSolve(t, m)
+			if f := s.Reactions[0].Force[Axial]; math.Abs(f+1e3) > 1e-9 {
+				t.Errorf("the support takes %g N along the tie, want -1000 N", f)
+			}
+		})
+	}
+}
