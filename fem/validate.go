@@ -254,7 +254,7 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 		case strings.TrimSpace(lc.Name) == "":
 			v.add(Place{Item: it, Property: NameProperty}, fmt.Sprintf("load case %d has no name: name it (permanent, imposed, snow...)", c+1))
 		case seen:
-			v.add(Place{Item: it, Property: NameProperty}, fmt.Sprintf("load cases %d and %d are both named %q: give each case its own name", prev+1, c+1, lc.Name))
+			v.add(Place{Item: it, Property: NameProperty}, fmt.Sprintf("load cases %d and %d %s: give each case its own name", prev+1, c+1, namedAlike(m.Cases[prev].Name, lc.Name)))
 		default:
 			names[strings.ToLower(lc.Name)] = c
 		}
@@ -288,7 +288,7 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 		case strings.TrimSpace(cb.Name) == "":
 			v.add(Place{Item: it, Property: NameProperty}, fmt.Sprintf("combination %d has no name: name it", k+1))
 		case seen:
-			v.add(Place{Item: it, Property: NameProperty}, fmt.Sprintf("combinations %d and %d are both named %q: give each its own name", prev+1, k+1, cb.Name))
+			v.add(Place{Item: it, Property: NameProperty}, fmt.Sprintf("combinations %d and %d %s: give each its own name", prev+1, k+1, namedAlike(m.Combinations[prev].Name, cb.Name)))
 		default:
 			combos[strings.ToLower(cb.Name)] = k
 		}
@@ -315,6 +315,17 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 			v.add(Place{Item: it, Property: FactorsProperty}, fmt.Sprintf("combination %q applies no load: every factor is 0 (its envelope would be zero everywhere and govern nothing): give a case a factor other than 0, or delete the combination", cb.Name))
 		}
 	}
+}
+
+// namedAlike says that two items are named a and b, names that differ at
+// most in letter case, which does not tell names apart: "are both named
+// "snow"", or, where the letters' case differs, both names and why they
+// count as one.
+func namedAlike(a, b string) string {
+	if a == b {
+		return fmt.Sprintf("are both named %q", b)
+	}
+	return fmt.Sprintf("are named %q and %q, one name to Stave (it does not tell capitals from small letters)", a, b)
 }
 
 // appliesNothing says every factor of cb, on its cases and its trains, is 0.

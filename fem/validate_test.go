@@ -519,3 +519,47 @@ func TestValidateAxialOnlyRefusesWhatBendsIt(t *testing.T) {
 		})
 	}
 }
+
+// Names of cases and of combinations are told apart without regard to
+// letter case; a refusal of two names that differ only so quotes both, as
+// the user typed them, and says why they count as one.
+func TestValidateNamesApartFromLetterCase(t *testing.T) {
+	cased := func(first, second string) *Model {
+		m := validModel()
+		load := func() LoadCase {
+			return LoadCase{PointLoads: []PointLoad{{X: 1.5, Transverse: -1e3}}}
+		}
+		a, b := load(), load()
+		a.Name, b.Name = first, second
+		m.Cases = []LoadCase{a, b}
+		m.PointLoads, m.DistributedLoad = nil, nil
+		m.Combinations = []Combination{
+			{Name: first, Kind: Strength, Factors: []CaseFactor{{Case: 0, Factor: 1}}},
+			{Name: second, Kind: Strength, Factors: []CaseFactor{{Case: 1, Factor: 1}}},
+		}
+		return m
+	}
+	tests := []struct {
+		first, second string
+		want          []string
+	}{
+		{"imposed", "imposed", []string{
+			`load cases 1 and 2 are both named "imposed": give each case its own name`,
+			`combinations 1 and 2 are both named "imposed": give each its own name`}},
+		{"imposed", "Imposed", []string{
+			`load cases 1 and 2 are named "imposed" and "Imposed", one name to Stave (it does not tell capitals from small letters): give each case its own name`,
+			`combinations 1 and 2 are named "imposed" and "Imposed", one name to Stave (it does not tell capitals from small letters): give each its own name`}},
+	}
+	for _, c := range tests {
+		err := cased(c.first, c.second).Validate()
+		if err == nil {
+			t.Errorf("%q and %q: accepted", c.first, c.second)
+			continue
+		}
+		for _, w := range c.want {
+			if !strings.Contains(err.Error(), w) {
+				t.Errorf("%q and %q: the refusal does not say %q:\n%v", c.first, c.second, w, err)
+			}
+		}
+	}
+}
