@@ -954,3 +954,47 @@ func TestConvergeMaxIsRoundedDownToAPowerOfTwo(t *testing.T) {
 		t.Errorf("converge --help does not say how the finest mesh follows from --max:\n%s", help)
 	}
 }
+
+// A safety factor or a deflection limit n so small that the limit it gives
+// (the allowable stress over the factor, the span over n) is beyond
+// floating point still gives a results document: the limit is null, as
+// for a check of no limit. The stiff beam's stress, 25 MPa, and
+// deflection, 2.1 mm (stiff), lie within any finite limit: the deflection
+// passes, the stress warns, as under any safety factor below 1.
+func TestSolveJSONLimitsBeyondFloatingPoint(t *testing.T) {
+	dir := t.TempDir()
+	for _, c := range []struct{ key, check, status string }{{"safety_factor", "Stress", "warn"}, {"deflection_limit", "Deflection", "pass"}} {
+		path := variant(t, dir, c.key, func(m map[string]any) {
+			stiff(m)
+			m["view"].(map[string]any)[c.key] = 5e-324
+		})
+		code, stdout, stderr := runStave(t, "solve", "--json", path)
+		if code != 0 || stderr != "" {
+			t.Errorf("%s 5e-324: exit %d, stderr %q; want 0 and nothing", c.key, code, stderr)
+			continue
+		}
+		checkSolveJSON(t, []byte(stdout))
+		var doc struct {
+			Checks []struct {
+				Name, Status string
+				Limit        *float64
+			}
+		}
+		if err := json.Unmarshal([]byte(stdout), &doc); err != nil {
+			t.Fatal(err)
+		}
+		found := false
+		for _, r := range doc.Checks {
+			if strings.HasPrefix(r.Name, c.check) {
+				found = true
+				if r.Limit != nil || r.Status != c.status {
+					limit, _ := json.Marshal(r.Limit)
+					t.Errorf("%s 5e-324: %s %s against %s, want %s against null", c.key, r.Name, r.Status, limit, c.status)
+				}
+			}
+		}
+		if !found {
+			t.Errorf("%s 5e-324: no %s check in %v", c.key, c.check, doc.Checks)
+		}
+	}
+}
