@@ -77,6 +77,7 @@ func TestCasesLocatedMessages(t *testing.T) {
 		{"load in a case", `[0, -500]`, `[0, -500], [9, -500]`, "cases[0].loads[1].points[1][0]", "outside the member"},
 		{"case unknown key", `"by_span": true`, `"by_spans": true`, "cases[1].by_spans", "unknown key"},
 		{"no factors", `"factors": [`, `"factors": [], "x": [`, "combinations[0].factors", "combines no load cases"},
+		{"case and train in one factor", `"case": "imposed"`, `"case": "imposed", "train": "hoist"`, "combinations[0].factors[1].case", `factor 2 of combination 1 names both a load case and a moving load train: give each its own entry, {"case": NAME, "factor": F} or {"train": NAME, "factor": F}`},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
