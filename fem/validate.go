@@ -475,6 +475,31 @@ func (v *validator) segments(segs []Segment) {
 			v.add(at(DepthProperty), fmt.Sprintf("segment %d has a temperature difference through its depth but no depth to spread it over: enter the section's depth (or its extreme fibre distance, for a symmetric section)", i+1))
 		}
 		v.segmentStiffness(it, s)
+		v.sectionModulus(it, s)
+	}
+}
+
+// Section modulus range. Every bending moment is divided by I/c into a
+// stress: I/c must lie within 1e±150 m³, as the stiffnesses must (see
+// minStiffness), so that c/I neither overflows (a moment of 0 times it is
+// then NaN) nor leaves the stresses no room; real members' lie near 1e-9
+// to 10 m³.
+const (
+	minSectionModulus = 1e-150
+	maxSectionModulus = 1e150
+)
+
+// sectionModulus keeps the segment's I/c within the section modulus range,
+// in logarithms so that the check itself cannot overflow.
+func (v *validator) sectionModulus(it Item, s Segment) {
+	I, c := s.Section.SecondMoment, s.Section.FibreDistance
+	if !isFinite(I) || !isFinite(c) || I <= 0 || c <= 0 {
+		return // reported above
+	}
+	if e := log10(I) - log10(c); e < log10(minSectionModulus) || e > log10(maxSectionModulus) {
+		v.add(Place{Item: it, Property: FibreDistanceProperty}, fmt.Sprintf("%s: its section modulus I/c is about %s %s (I = %s, c = %s), outside the range the solvers work in (%s): check these values and their units",
+			label(it), fmtPowerOfTen(e-log10(v.u.Unit(units.SectionModulus).ToSI)), v.unit(units.SectionModulus), v.num(units.SecondMoment, I), v.num(units.Dimension, c),
+			v.span(units.SectionModulus, minSectionModulus, maxSectionModulus)))
 	}
 }
 

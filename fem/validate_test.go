@@ -563,3 +563,25 @@ func TestValidateNamesApartFromLetterCase(t *testing.T) {
 		}
 	}
 }
+
+// The section modulus I/c divides every bending moment into a stress: it
+// must lie within the range the solvers work in, 1e±150 m³, as the
+// stiffnesses must. A fibre distance of 1e308 m over I = 8e-5 m⁴ (I/c
+// = 8e-313 m³, arithmetic) made c/I overflow, and a moment of 0 (a bar held at both ends and heated)
+// times it NaN; the section moduli of real members lie near 1e-9 to 10 m³.
+func TestValidateSectionModulusRange(t *testing.T) {
+	fibre := func(c float64) func(m *Model) {
+		return func(m *Model) { m.Segments[1].Section.FibreDistance = c }
+	}
+	checkValidation(t, []validationCase{
+		{"fibre distance 1e308 m", fibre(1e308), place(SegmentItem, 1, FibreDistanceProperty),
+			"segment 2: its section modulus I/c is about 8e-313 m³ (I = 8e-05 m⁴, c = 1e+308 m), outside the range the solvers work in (1e-150 to 1e+150 m³): check these values and their units"},
+		{"fibre distance 1e-300 m", fibre(1e-300), place(SegmentItem, 1, FibreDistanceProperty),
+			"its section modulus I/c is about 8e+295 m³"},
+	})
+	m := validModel()
+	fibre(1e3)(m) // I/c = 8e-8 m³, within the range
+	if err := m.Validate(); err != nil {
+		t.Errorf("a section modulus of 8e-8 m³ refused: %v", err)
+	}
+}
