@@ -593,7 +593,8 @@ func newStretch(m *Model, l *Loads, j int) exactStretch {
 	}
 	s.shear, s.load, s.axialLoad = seg.ShearFlexibility(), transverse, axial
 	if l.TemperatureDifference != nil {
-		s.beam.offset = -ei * mat.ThermalExpansion * l.TemperatureDifference[m.SegmentAt(0.5*(a+b))] / sec.depth()
+		// The curvature α·ΔT/h first: E·I·α may overflow where ΔT is 0.
+		s.beam.offset = -ei * (mat.ThermalExpansion * l.TemperatureDifference[m.SegmentAt(0.5*(a+b))] / sec.depth())
 	}
 	return s
 }

@@ -767,7 +767,8 @@ func (m *Model) imposedScales() (axial, across, moment float64) {
 	for _, sg := range m.Segments {
 		a, e := sg.Material.ThermalExpansion, sg.Material.Elastic
 		ea, ei = math.Max(ea, e*sg.Section.Area), math.Max(ei, e*sg.Section.SecondMoment)
-		axial = math.Max(axial, e*sg.Section.Area*math.Abs(a)*dT)
+		// The strain α·ΔT first: E·A·α may overflow where ΔT is 0.
+		axial = math.Max(axial, e*sg.Section.Area*math.Abs(a*dT))
 		if h := sg.Section.depth(); h > 0 {
 			moment = math.Max(moment, e*sg.Section.SecondMoment*math.Abs(a*sg.TemperatureDifference)/h)
 		}

@@ -834,3 +834,38 @@ func TestSummaryDisplacementRoundOffBesideAWeakOverhang(t *testing.T) {
 		}
 	}
 }
+
+// A coefficient of thermal expansion with no temperature load does nothing,
+// however large: a finite α of 1e308 where no temperature change or
+// difference acts leaves the summary's imposed scales and its error
+// measures those of the same member without α, not NaN (E·A·α or E·I·α
+// overflowed before they were multiplied by a ΔT of 0), also beside a
+// segment warmer on one face.
+func TestHugeExpansionWithoutTemperatureDoesNothing(t *testing.T) {
+	measure := func(alpha float64, warmFirst bool) (*ErrorNorms, [2]float64) {
+		m := validModel()
+		for i := range m.Segments {
+			m.Segments[i].Material.ThermalExpansion = alpha
+		}
+		if warmFirst { // the first segment warmer on one face, with a usual α
+			m.Segments[0].Material.ThermalExpansion, m.Segments[0].TemperatureDifference = 12e-6, 20
+		}
+		s := mustSolve(t, m)
+		e, err := SolveExact(m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		force, moment := m.ImposedScales()
+		return Summarize(s, e).ExactError, [2]float64{force, moment}
+	}
+	for _, warm := range []bool{false, true} {
+		plain, plainScales := measure(0, warm)
+		huge, scales := measure(1e308, warm)
+		if scales != plainScales {
+			t.Errorf("first segment warmed %v: imposed scales %v with α = 1e308 where no temperature acts, want %v", warm, scales, plainScales)
+		}
+		if plain == nil || huge == nil || *huge != *plain {
+			t.Errorf("first segment warmed %v: error measures with α = 1e308 where no temperature acts: %+v; want those without α: %+v", warm, huge, plain)
+		}
+	}
+}

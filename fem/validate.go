@@ -186,7 +186,9 @@ func (v *validator) axialOnly(m *Model) {
 const axialOnlyWhy = "the member is declared to carry axial force only (a tie or strut)"
 
 // axialOnlyLoads refuses point and distributed loads that would bend an
-// axial-only member.
+// axial-only member: a transverse force, a moment, a transverse line load
+// not zero everywhere. A zero transverse part carries nothing across, as
+// for a member found axial-only without the declaration (bendsMember).
 func (v *validator) axialOnlyLoads(points []PointLoad, lines []DistributedLoad) {
 	const why = axialOnlyWhy
 	for i, p := range points {
@@ -199,7 +201,7 @@ func (v *validator) axialOnlyLoads(points []PointLoad, lines []DistributedLoad) 
 		}
 	}
 	for i, d := range lines {
-		if d.Direction == Transverse {
+		if d.Direction == Transverse && slices.ContainsFunc(d.Points, func(p LoadPoint) bool { return p.Intensity != 0 }) {
 			v.add(Place{Item: Item{Kind: DistributedLoadItem, Index: i, Case: v.loadCase}, Property: DirectionProperty}, fmt.Sprintf("distributed load %d acts across the member, but %s: make it axial, or let the member bend", i+1, why))
 		}
 	}
@@ -252,7 +254,7 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 		case strings.TrimSpace(lc.Name) == "":
 			v.add(Place{Item: it, Property: NameProperty}, fmt.Sprintf("load case %d has no name: name it (permanent, imposed, snow...)", c+1))
 		case seen:
-			v.add(Place{Item: it, Property: NameProperty}, fmt.Sprintf("load cases %d and %d are both named %q: give each case its own name", prev+1, c+1, lc.Name))
+			v.add(Place{Item: it, Property: NameProperty}, fmt.Sprintf("load cases %d and %d %s: give each case its own name", prev+1, c+1, namedAlike(m.Cases[prev].Name, lc.Name)))
 		default:
 			names[strings.ToLower(lc.Name)] = c
 		}
@@ -286,7 +288,7 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 		case strings.TrimSpace(cb.Name) == "":
 			v.add(Place{Item: it, Property: NameProperty}, fmt.Sprintf("combination %d has no name: name it", k+1))
 		case seen:
-			v.add(Place{Item: it, Property: NameProperty}, fmt.Sprintf("combinations %d and %d are both named %q: give each its own name", prev+1, k+1, cb.Name))
+			v.add(Place{Item: it, Property: NameProperty}, fmt.Sprintf("combinations %d and %d %s: give each its own name", prev+1, k+1, namedAlike(m.Combinations[prev].Name, cb.Name)))
 		default:
 			combos[strings.ToLower(cb.Name)] = k
 		}
@@ -313,6 +315,17 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 			v.add(Place{Item: it, Property: FactorsProperty}, fmt.Sprintf("combination %q applies no load: every factor is 0 (its envelope would be zero everywhere and govern nothing): give a case a factor other than 0, or delete the combination", cb.Name))
 		}
 	}
+}
+
+// namedAlike says that two items are named a and b, names that differ at
+// most in letter case, which does not tell names apart: "are both named
+// "snow"", or, where the letters' case differs, both names and why they
+// count as one.
+func namedAlike(a, b string) string {
+	if a == b {
+		return fmt.Sprintf("are both named %q", b)
+	}
+	return fmt.Sprintf("are named %q and %q, one name to Stave (it does not tell capitals from small letters)", a, b)
 }
 
 // appliesNothing says every factor of cb, on its cases and its trains, is 0.
@@ -462,6 +475,31 @@ func (v *validator) segments(segs []Segment) {
 			v.add(at(DepthProperty), fmt.Sprintf("segment %d has a temperature difference through its depth but no depth to spread it over: enter the section's depth (or its extreme fibre distance, for a symmetric section)", i+1))
 		}
 		v.segmentStiffness(it, s)
+		v.sectionModulus(it, s)
+	}
+}
+
+// Section modulus range. Every bending moment is divided by I/c into a
+// stress: I/c must lie within 1e±150 m³, as the stiffnesses must (see
+// minStiffness), so that c/I neither overflows (a moment of 0 times it is
+// then NaN) nor leaves the stresses no room; real members' lie near 1e-9
+// to 10 m³.
+const (
+	minSectionModulus = 1e-150
+	maxSectionModulus = 1e150
+)
+
+// sectionModulus keeps the segment's I/c within the section modulus range,
+// in logarithms so that the check itself cannot overflow.
+func (v *validator) sectionModulus(it Item, s Segment) {
+	I, c := s.Section.SecondMoment, s.Section.FibreDistance
+	if !isFinite(I) || !isFinite(c) || I <= 0 || c <= 0 {
+		return // reported above
+	}
+	if e := log10(I) - log10(c); e < log10(minSectionModulus) || e > log10(maxSectionModulus) {
+		v.add(Place{Item: it, Property: FibreDistanceProperty}, fmt.Sprintf("%s: its section modulus I/c is about %s %s (I = %s, c = %s), outside the range the solvers work in (%s): check these values and their units",
+			label(it), fmtPowerOfTen(e-log10(v.u.Unit(units.SectionModulus).ToSI)), v.unit(units.SectionModulus), v.num(units.SecondMoment, I), v.num(units.Dimension, c),
+			v.span(units.SectionModulus, minSectionModulus, maxSectionModulus)))
 	}
 }
 

@@ -455,3 +455,133 @@ func TestValidateShearDeformationOneProblem(t *testing.T) {
 		})
 	}
 }
+
+// A member declared axial-only (a tie or strut) is refused only what would
+// bend it: a transverse force, a moment or a transverse line load that is
+// not zero. A load whose transverse part is zero carries nothing across, as
+// the members found axial-only without the declaration take it
+// (Loads.bendsMember), whether a point load or a line load, in the model or
+// in a load case. The accepted ones solve to the tie's axial force, the end
+// load (statics).
+func TestValidateAxialOnlyRefusesWhatBendsIt(t *testing.T) {
+	tie := func() *Model {
+		return &Model{
+			Segments:   []Segment{testSegment(0, 3)},
+			Supports:   []Support{{X: 0, Kind: AxialOnly}},
+			PointLoads: []PointLoad{{X: 3, Axial: 1e3}},
+			AxialOnly:  true,
+		}
+	}
+	inCase := func(m *Model) {
+		m.Cases = []LoadCase{{Name: "pull", PointLoads: m.PointLoads, DistributedLoad: m.DistributedLoad}}
+		m.PointLoads, m.DistributedLoad = nil, nil
+	}
+	line := func(q0, q1 float64) func(m *Model) {
+		return func(m *Model) {
+			m.DistributedLoad = []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, q0}, {3, q1}}}}
+		}
+	}
+	tests := []struct {
+		name   string
+		edits  []func(m *Model)
+		refuse string // "" for accepted
+	}{
+		{"point load of zero transverse force", []func(m *Model){func(m *Model) { m.PointLoads[0].Transverse = 0 }}, ""},
+		{"transverse line load of zero intensity", []func(m *Model){line(0, 0)}, ""},
+		{"transverse line load of zero intensity in a case", []func(m *Model){line(0, 0), inCase}, ""},
+		{"transverse point load", []func(m *Model){func(m *Model) { m.PointLoads[0].Transverse = -1 }}, "point load 1 pushes across the member"},
+		{"transverse line load zero at one end", []func(m *Model){line(0, -1)}, "distributed load 1 acts across the member"},
+		{"transverse line load in a case", []func(m *Model){line(-1, -1), inCase}, `load case "pull": distributed load 1 acts across the member`},
+	}
+	for _, c := range tests {
+		t.Run(c.name, func(t *testing.T) {
+			m := tie()
+			for _, edit := range c.edits {
+				edit(m)
+			}
+			err := m.Validate()
+			if c.refuse != "" {
+				if err == nil || !strings.Contains(err.Error(), c.refuse+", but the member is declared to carry axial force only") {
+					t.Errorf("got %v, want a refusal saying %q", err, c.refuse)
+				}
+				return
+			}
+			if err != nil {
+				t.Fatalf("refused: %v", err)
+			}
+			if len(m.Cases) > 0 {
+				return
+			}
+			s := mustSolve(t, m)
+			if f := s.Reactions[0].Force[Axial]; math.Abs(f+1e3) > 1e-9 {
+				t.Errorf("the support takes %g N along the tie, want -1000 N", f)
+			}
+		})
+	}
+}
+
+// Names of cases and of combinations are told apart without regard to
+// letter case; a refusal of two names that differ only so quotes both, as
+// the user typed them, and says why they count as one.
+func TestValidateNamesApartFromLetterCase(t *testing.T) {
+	cased := func(first, second string) *Model {
+		m := validModel()
+		load := func() LoadCase {
+			return LoadCase{PointLoads: []PointLoad{{X: 1.5, Transverse: -1e3}}}
+		}
+		a, b := load(), load()
+		a.Name, b.Name = first, second
+		m.Cases = []LoadCase{a, b}
+		m.PointLoads, m.DistributedLoad = nil, nil
+		m.Combinations = []Combination{
+			{Name: first, Kind: Strength, Factors: []CaseFactor{{Case: 0, Factor: 1}}},
+			{Name: second, Kind: Strength, Factors: []CaseFactor{{Case: 1, Factor: 1}}},
+		}
+		return m
+	}
+	tests := []struct {
+		first, second string
+		want          []string
+	}{
+		{"imposed", "imposed", []string{
+			`load cases 1 and 2 are both named "imposed": give each case its own name`,
+			`combinations 1 and 2 are both named "imposed": give each its own name`}},
+		{"imposed", "Imposed", []string{
+			`load cases 1 and 2 are named "imposed" and "Imposed", one name to Stave (it does not tell capitals from small letters): give each case its own name`,
+			`combinations 1 and 2 are named "imposed" and "Imposed", one name to Stave (it does not tell capitals from small letters): give each its own name`}},
+	}
+	for _, c := range tests {
+		err := cased(c.first, c.second).Validate()
+		if err == nil {
+			t.Errorf("%q and %q: accepted", c.first, c.second)
+			continue
+		}
+		for _, w := range c.want {
+			if !strings.Contains(err.Error(), w) {
+				t.Errorf("%q and %q: the refusal does not say %q:\n%v", c.first, c.second, w, err)
+			}
+		}
+	}
+}
+
+// The section modulus I/c divides every bending moment into a stress: it
+// must lie within the range the solvers work in, 1e±150 m³, as the
+// stiffnesses must. A fibre distance of 1e308 m over I = 8e-5 m⁴ (I/c
+// = 8e-313 m³, arithmetic) made c/I overflow, and a moment of 0 (a bar held at both ends and heated)
+// times it NaN; the section moduli of real members lie near 1e-9 to 10 m³.
+func TestValidateSectionModulusRange(t *testing.T) {
+	fibre := func(c float64) func(m *Model) {
+		return func(m *Model) { m.Segments[1].Section.FibreDistance = c }
+	}
+	checkValidation(t, []validationCase{
+		{"fibre distance 1e308 m", fibre(1e308), place(SegmentItem, 1, FibreDistanceProperty),
+			"segment 2: its section modulus I/c is about 8e-313 m³ (I = 8e-05 m⁴, c = 1e+308 m), outside the range the solvers work in (1e-150 to 1e+150 m³): check these values and their units"},
+		{"fibre distance 1e-300 m", fibre(1e-300), place(SegmentItem, 1, FibreDistanceProperty),
+			"its section modulus I/c is about 8e+295 m³"},
+	})
+	m := validModel()
+	fibre(1e3)(m) // I/c = 8e-8 m³, within the range
+	if err := m.Validate(); err != nil {
+		t.Errorf("a section modulus of 8e-8 m³ refused: %v", err)
+	}
+}

@@ -131,6 +131,10 @@ func (r *reader) cases(p *Project, top *fields) {
 		for j, item := range factors {
 			ff := r.object(factorPaths[j], item)
 			if item.kind == objectNode && item.fields["train"] != nil {
+				if item.fields["case"] != nil { // one entry, one of the two: which would the factor take?
+					r.add(join(ff.path, "case"), `factor %d of combination %d names both a load case and a moving load train: give each its own entry, {"case": NAME, "factor": F} or {"train": NAME, "factor": F}`, j+1, i+1)
+					ff.known = append(ff.known, "case")
+				}
 				if tf, ok := r.trainFactor(p, ff); ok {
 					cb.Trains = append(cb.Trains, tf)
 				}

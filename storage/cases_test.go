@@ -72,11 +72,12 @@ func TestCasesLocatedMessages(t *testing.T) {
 		{"factor not a number", `"factor": 1.35`, `"factor": "x"`, "combinations[0].factors[0].factor", "expected a number"},
 		{"unknown kind", `"kind": "serviceability"`, `"kind": "quasi"`, "combinations[1].kind", `"quasi" is not a kind of combination`},
 		{"empty case", `"temperature_change": -15`, `"temperature_change": 0`, "cases[2]", `load case "thermal" is empty`},
-		{"duplicate case", `"name": "thermal"`, `"name": "Imposed"`, "cases[2].name", "both named"},
+		{"duplicate case", `"name": "thermal"`, `"name": "Imposed"`, "cases[2].name", `load cases 2 and 3 are named "imposed" and "Imposed", one name to Stave`},
 		{"case unnamed", `"name": "thermal"`, `"name": ""`, "cases[2].name", "has no name"},
 		{"load in a case", `[0, -500]`, `[0, -500], [9, -500]`, "cases[0].loads[1].points[1][0]", "outside the member"},
 		{"case unknown key", `"by_span": true`, `"by_spans": true`, "cases[1].by_spans", "unknown key"},
 		{"no factors", `"factors": [`, `"factors": [], "x": [`, "combinations[0].factors", "combines no load cases"},
+		{"case and train in one factor", `"case": "imposed"`, `"case": "imposed", "train": "hoist"`, "combinations[0].factors[1].case", `factor 2 of combination 1 names both a load case and a moving load train: give each its own entry, {"case": NAME, "factor": F} or {"train": NAME, "factor": F}`},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {

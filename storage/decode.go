@@ -80,6 +80,7 @@ func Unmarshal(data []byte) (*Project, error) {
 		}
 	}
 	if len(problems) > 0 {
+		inFileOrder(problems)
 		return nil, &LoadError{Problems: problems}
 	}
 	return p, nil
@@ -94,6 +95,7 @@ func Validate(p *Project) error {
 		problems = append(problems, oversize(len(data)))
 	}
 	if len(problems) > 0 {
+		inFileOrder(problems)
 		return &LoadError{Problems: problems}
 	}
 	return nil

@@ -267,3 +267,55 @@ func TestModelPathOfEveryProperty(t *testing.T) {
 		}
 	}
 }
+
+// A file with several problems lists them in the file's order, top to
+// bottom, loads by their place in the list whatever their kind, the
+// problems the reader finds (a value of the wrong type) among those the
+// model's checks find; the sentences number point and distributed loads
+// each on their own, as the window's drawing and properties do, and the
+// path gives the load's place in the file's list.
+func TestDecodeListsProblemsInFileOrder(t *testing.T) {
+	text := readDemo(t)
+	start := strings.Index(text, `"loads": [`)
+	end := strings.Index(text, `"self_weight"`)
+	if start < 0 || end < start {
+		t.Fatal("the demo file has no loads before its self-weight")
+	}
+	loads := `"loads": [
+		{"kind": "distributed", "direction": "transverse", "points": [[1, -5], [1, -5]]},
+		{"kind": "point", "x": 99, "transverse": -1},
+		{"kind": "point", "x": 1, "moment": "big"},
+		{"kind": "distributed", "direction": "axial", "points": [[0, -5], [99, -5]]},
+		{"kind": "point", "x": -5}
+	],
+	`
+	text = text[:start] + loads + text[end:]
+	for _, edit := range [][2]string{
+		{`"area": 0.0243,`, `"area": 0,`},
+		{`"elements": 22,`, `"elements": -1,`},
+	} {
+		text = strings.Replace(text, edit[0], edit[1], 1)
+	}
+	_, err := Unmarshal([]byte(text))
+	var le *LoadError
+	if !errors.As(err, &le) {
+		t.Fatalf("error %v is not a *LoadError", err)
+	}
+	want := []struct{ path, phrase string }{
+		{"member.segments[0].section.area", "segment 1"},
+		{"loads[0].points", "distributed load 1 starts and ends"},
+		{"loads[1].x", "point load 1 at x = 99.0 m"},
+		{"loads[2].moment", "expected a number"},
+		{"loads[3].points[1][0]", "distributed load 2: point 2 at x = 99.0 m"},
+		{"loads[4].x", "point load 3 at x = -5.0 m"},
+		{"mesh.elements", "-1 elements"},
+	}
+	if len(le.Problems) != len(want) {
+		t.Fatalf("%d problems, want %d:\n%v", len(le.Problems), len(want), err)
+	}
+	for i, w := range want {
+		if q := le.Problems[i]; q.Path != w.path || !strings.Contains(q.Message, w.phrase) {
+			t.Errorf("problem %d is %s: %s; want %s: …%s…\nall:\n%v", i+1, q.Path, q.Message, w.path, w.phrase, err)
+		}
+	}
+}

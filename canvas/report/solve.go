@@ -4,6 +4,7 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
+	"math"
 	"strings"
 	"text/tabwriter"
 
@@ -451,8 +452,9 @@ func checksOf(a *analysis.Analysis) []checkJSON {
 	for _, r := range a.Checks {
 		j := checkJSON{Check: r.Code, Name: r.Name, Kind: kindNames[r.Kind], Status: r.Status.String(),
 			Source: headlineName(r.Exact), Value: r.Value, Unit: r.Unit, X: r.X, XUnit: "m", Message: r.Message}
-		if r.Status != check.Info {
-			limit := r.Limit
+		// A limit beyond floating point (the allowable stress over a
+		// safety factor of 5e-324) is no limit: null, as for a check of none.
+		if limit := r.Limit; r.Status != check.Info && !math.IsInf(limit, 0) && !math.IsNaN(limit) {
 			j.Limit = &limit
 		}
 		if r.HasFE {

@@ -244,6 +244,9 @@ func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem
 					c.MinSide[q][s] = moving.JumpSide(onLeft.Min[q][s], onRight.Min[q][s], false)
 				}
 			}
+			if !finiteEnvelope(c) {
+				return nil, fmt.Errorf("combination %q takes it with a factor of %s, and the results are too large for floating point (a force, moment or displacement is infinite): check the factor and the train's loads", cb.Name, units.FormatG("%.3g", tf.Factor))
+			}
 			// The combination at points off the stations, for its peaks
 			// there (no support lies between stations: no jump to side).
 			probe := func(xs []float64) *moving.Envelope {
@@ -267,6 +270,20 @@ func trainCombinations(p *storage.Project, i int, in *moving.Influence, mesh fem
 		}
 	}
 	return out, nil
+}
+
+// finiteEnvelope says whether every extreme of e, along the member and of
+// the reactions, is a finite number.
+func finiteEnvelope(e *moving.Envelope) bool {
+	infinite := func(v float64) bool { return math.IsInf(v, 0) || math.IsNaN(v) }
+	for _, rows := range [][][]float64{e.Max, e.Min} {
+		for _, row := range rows {
+			if slices.ContainsFunc(row, infinite) {
+				return false
+			}
+		}
+	}
+	return !slices.ContainsFunc(e.Reactions, func(r moving.ReactionEnvelope) bool { return infinite(r.Max) || infinite(r.Min) })
 }
 
 // TrainCombinations are the combinations of p that take train i, each

@@ -954,3 +954,89 @@ func TestConvergeMaxIsRoundedDownToAPowerOfTwo(t *testing.T) {
 		t.Errorf("converge --help does not say how the finest mesh follows from --max:\n%s", help)
 	}
 }
+
+// A safety factor or a deflection limit n so small that the limit it gives
+// (the allowable stress over the factor, the span over n) is beyond
+// floating point still gives a results document: the limit is null, as
+// for a check of no limit. The stiff beam's stress, 25 MPa, and
+// deflection, 2.1 mm (stiff), lie within any finite limit: the deflection
+// passes, the stress warns, as under any safety factor below 1.
+func TestSolveJSONLimitsBeyondFloatingPoint(t *testing.T) {
+	dir := t.TempDir()
+	for _, c := range []struct{ key, check, status string }{{"safety_factor", "Stress", "warn"}, {"deflection_limit", "Deflection", "pass"}} {
+		path := variant(t, dir, c.key, func(m map[string]any) {
+			stiff(m)
+			m["view"].(map[string]any)[c.key] = 5e-324
+		})
+		code, stdout, stderr := runStave(t, "solve", "--json", path)
+		if code != 0 || stderr != "" {
+			t.Errorf("%s 5e-324: exit %d, stderr %q; want 0 and nothing", c.key, code, stderr)
+			continue
+		}
+		checkSolveJSON(t, []byte(stdout))
+		var doc struct {
+			Checks []struct {
+				Name, Status string
+				Limit        *float64
+			}
+		}
+		if err := json.Unmarshal([]byte(stdout), &doc); err != nil {
+			t.Fatal(err)
+		}
+		found := false
+		for _, r := range doc.Checks {
+			if strings.HasPrefix(r.Name, c.check) {
+				found = true
+				if r.Limit != nil || r.Status != c.status {
+					limit, _ := json.Marshal(r.Limit)
+					t.Errorf("%s 5e-324: %s %s against %s, want %s against null", c.key, r.Name, r.Status, limit, c.status)
+				}
+			}
+		}
+		if !found {
+			t.Errorf("%s 5e-324: no %s check in %v", c.key, c.check, doc.Checks)
+		}
+	}
+}
+
+// A combination that takes a train with a factor so large that the
+// combined envelope overflows (1e308 times the end carriage's 42 kN
+// axles) is reported, not written as infinite values: the results
+// document is whole, and a train_not_placed warning says the results are
+// too large for floating point, naming the combination and its factor.
+func TestSolveJSONTrainFactorBeyondFloatingPoint(t *testing.T) {
+	path := variantOf(t, "../../testdata/moving/runway.json", t.TempDir(), "huge", func(m map[string]any) {
+		m["cases"] = []any{map[string]any{"name": "dead", "loads": []any{map[string]any{
+			"kind": "distributed", "direction": "transverse", "points": []any{[]any{0, -1000}, []any{12, -1000}}}}}}
+		m["combinations"] = []any{map[string]any{"name": "crane", "kind": "strength", "factors": []any{
+			map[string]any{"case": "dead", "factor": 1}, map[string]any{"train": "end carriage", "factor": 1e308}}}}
+	})
+	const says = `combination "crane" takes it with a factor of 1e+308, and the results are too large for floating point`
+	for _, args := range [][]string{{"solve", "--json", path}, {"solve", path}} {
+		code, stdout, stderr := runStave(t, args...)
+		if code != 0 && code != 3 || stderr != "" {
+			t.Errorf("%v: exit %d, stderr %q; want 0 or 3 and nothing", args, code, stderr)
+			continue
+		}
+		if strings.Contains(stdout, "infinite kN") || strings.Contains(stdout, "infinite mm") {
+			t.Errorf("%v: infinite values written:\n%s", args, stdout)
+		}
+		text := stdout
+		if args[1] == "--json" {
+			checkSolveJSON(t, []byte(stdout))
+			var doc solveJSON
+			if err := json.Unmarshal([]byte(stdout), &doc); err != nil {
+				t.Fatal(err)
+			}
+			text = ""
+			for _, w := range doc.Warnings {
+				if w.Code == "train_not_placed" {
+					text += w.Message
+				}
+			}
+		}
+		if !strings.Contains(text, says) {
+			t.Errorf("%v: nothing says %q:\n%s", args, says, stdout)
+		}
+	}
+}

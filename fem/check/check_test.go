@@ -1101,3 +1101,58 @@ func TestNoSignOnAZeroShare(t *testing.T) {
 		t.Error("no deflection check of the cantilever")
 	}
 }
+
+// The deflection check says what it measures from: a span from the line
+// through its supports; a cantilever fixed at its support from the
+// member's tangent there (a cantilever has one support, and its tangent
+// does not turn under the loads); an overhang beyond a pin from the line
+// through its support at the slope settlement alone gives it, so the turn
+// over the support counts; a cantilever on a spring support from where
+// the spring stands unloaded. The values are those of
+// TestDeflectionLeavesSettlementOut; the spring's, by superposition of the
+// cantilever's P·L³/(3EI) (Gere & Goodno, Table G-1, from memory), the
+// spring's give P/k and its turn P·L/k_r carried over the length L
+// (statics).
+func TestDeflectionSaysWhatItMeasuresFrom(t *testing.T) {
+	const ei = 200e9 * 0.1 * 0.008 / 12
+	const k, kr = 1e7, 1e7
+	spring := fem.Support{X: 0, Kind: fem.Spring, Stiffness: [3]float64{1e9, k, kr}}
+	tests := []struct {
+		name      string
+		length    float64
+		supports  []fem.Support
+		check     string
+		want      float64
+		says, not []string
+	}{
+		{"cantilever", 2, []fem.Support{{X: 0, Kind: fem.Fixed}}, "Deflection, cantilever", 5e3 * 8 / (3 * ei),
+			[]string{"measured from the member's tangent at its fixed support (settlement not counted)"}, []string{"supports", "tilt"}},
+		{"overhang beyond a roller", 6, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 5, Kind: fem.Roller}}, "Deflection, cantilever", 5e3 * 1 * 1 * (5 + 1) / (3 * ei),
+			[]string{"measured from the line through its support at the slope settlement alone gives it (settlement not counted), so the member's turn over the support counts", "the deflection includes the tilt of the beam over the support"}, []string{"the supports"}},
+		{"span beside the overhang", 6, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 5, Kind: fem.Roller}}, "Deflection, span", 5e3 * 1 * 25 / (9 * math.Sqrt(3) * ei),
+			[]string{"measured from the line through the supports (settlement not counted)"}, []string{"tangent"}},
+		{"cantilever on a spring support", 2, []fem.Support{spring}, "Deflection, cantilever", 5e3*8/(3*ei) + 5e3/k + 5e3*2*2/kr,
+			[]string{"measured from the line through its support at the slope settlement alone gives it (settlement not counted), taken where the spring support stands unloaded, so the spring's give counts as deflection"}, []string{"the supports"}},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			m := beam(tt.length, tt.supports, 0)
+			m.PointLoads = []fem.PointLoad{{X: tt.length, Transverse: -5e3}}
+			s, e := solveBoth(t, &m)
+			r := find(t, Run(&m, s, e, Options{}), tt.check)
+			if !near(r.Value, tt.want, 1e-9) || !near(r.FE, tt.want, 1e-9) {
+				t.Errorf("%s: exact %g, FE %g; want %g", tt.check, r.Value, r.FE, tt.want)
+			}
+			for _, s := range tt.says {
+				if !strings.Contains(r.Message, s) {
+					t.Errorf("the message does not say %q: %s", s, r.Message)
+				}
+			}
+			for _, s := range tt.not {
+				if strings.Contains(r.Message, s) {
+					t.Errorf("the message says %q: %s", s, r.Message)
+				}
+			}
+		})
+	}
+}

@@ -216,16 +216,18 @@ func deflectionChecks(p *Probe, o Options) []Result {
 			// The file and the window set the span ratio only.
 			choice = fmt.Sprintf("applies to every cantilever and overhang, whatever the limit set for spans (span/%g)", o.SpanRatio)
 		}
-		measured := "measured from the line through the supports (settlement not counted)"
-		if st.spring[0] || st.spring[1] {
-			measured = "measured from the line through the supports (settlement not counted) where each spring support stands unloaded, so a spring's give under the loads counts as deflection"
-		}
+		measured, fixed := deflectionDatum(p.model, st)
 		figures := LimitFigures(o.Units, units.Deflection, r.Value, r.Limit)
 		r.Message = fmt.Sprintf("The largest deflection in this %s is %s at x = %s, %s, from %s. The limit %s/%g = %s %s (common practice: span/360 for floors under live load, /240 under total load, length/180 for cantilevers). This deflection comes from every load in the model, self-weight included: compare it with a total-load limit, or model the live load alone for a live-load limit.",
 			kind, o.Units.FormatFigures(units.Deflection, r.Value, figures), o.Units.Format(units.Position, r.X), measured, p.fromWhat(),
 			kind, n, o.Units.FormatFigures(units.Deflection, r.Limit, figures), choice)
 		if st.overhangs {
-			r.Message += " For a cantilever or an overhang the limit uses its own length (length/180 is the common-practice span/360 with the span taken as twice the length), and the deflection includes the tilt of the beam over the support."
+			r.Message += " For a cantilever or an overhang the limit uses its own length (length/180 is the common-practice span/360 with the span taken as twice the length)"
+			if fixed {
+				r.Message += "."
+			} else {
+				r.Message += ", and the deflection includes the tilt of the beam over the support."
+			}
 		} else {
 			r.Message += " The span is the distance between its supports, rigid or springs."
 		}
@@ -241,6 +243,41 @@ func deflectionChecks(p *Probe, o Options) []Result {
 		out = append(out, r)
 	}
 	return out
+}
+
+// deflectionDatum says what the deflection of part st is measured from
+// (the line newChord draws), and whether st is a cantilever or overhang
+// whose support holds rotation rigidly: a span from the line through its
+// two supports; such a cantilever from the member's tangent at that
+// support, which the loads do not turn; any other overhang from the line
+// through its support at the slope settlement alone gives it, so that the
+// member's turn over the support counts. Where a spring holds the part
+// across, the line is taken where the spring stands unloaded.
+func deflectionDatum(m *fem.Model, st stretch) (measured string, fixed bool) {
+	spring := ""
+	switch {
+	case st.overhangs && st.spring != [2]bool{}:
+		spring = ", taken where the spring support stands unloaded, so the spring's give counts as deflection"
+	case st.spring != [2]bool{}:
+		spring = " where each spring support stands unloaded, so a spring's give under the loads counts as deflection"
+	}
+	if !st.overhangs {
+		return "measured from the line through the supports (settlement not counted)" + spring, false
+	}
+	held := st.a
+	if !st.support[0] {
+		held = st.b
+	}
+	if holdsRotation(m, held) {
+		if spring != "" { // held rigidly in rotation, elastically across
+			return "measured from the member's tangent at its support, which holds it from turning (settlement not counted)" + spring, true
+		}
+		return "measured from the member's tangent at its fixed support (settlement not counted)", true
+	}
+	if spring == "" {
+		spring = ", so the member's turn over the support counts"
+	}
+	return "measured from the line through its support at the slope settlement alone gives it (settlement not counted)" + spring, false
 }
 
 // chordLine is the deflection of the supports of a part in one solution:
