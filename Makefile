@@ -45,11 +45,16 @@ fmt-check:
 	@out=$$(gofmt -l $$(git ls-files '*.go' 2>/dev/null || find . -name '*.go')); \
 	if [ -n "$$out" ]; then echo "gofmt would change: $$out"; exit 1; fi
 
+# Test binaries may run long on a busy 2-core machine (the window's tests
+# under the race detector took over 10 minutes, go test's default limit,
+# with other builds beside them); CI's own limit is 90 minutes.
+TEST_TIMEOUT ?= 40m
+
 unit:
-	$(GO) test -count=1 ./...
+	$(GO) test -count=1 -timeout $(TEST_TIMEOUT) ./...
 
 race:
-	$(GO) test -count=1 -race ./fem/... ./app/...
+	$(GO) test -count=1 -race -timeout $(TEST_TIMEOUT) ./fem/... ./app/...
 
 # Short runs of every fuzz target (.ci/fuzz.sh); a crasher is written under the package's testdata/fuzz.
 fuzz:
