@@ -106,7 +106,18 @@ func TestLongBeamOnFoundationPointLoad(t *testing.T) {
 //     continuous beam's;
 //   - a spring kₛ across the loaded end of a semi-infinite beam: the end
 //     takes P on the spring and the beam, whose end stiffness is k/(2β)
-//     (the first item), so w(0) = P/(kₛ + k/(2β)).
+//     (the first item), so w(0) = P/(kₛ + k/(2β));
+//   - a free beam of length L with a load P at one end, from nearly rigid
+//     (w(0) → 4P/(kL)) to long (w(0) → 2Pβ/k):
+//     w(0) = 2Pβ/k·(sinh λ cosh λ − sin λ cos λ)/(sinh²λ − sin²λ), λ = βL;
+//   - a simply supported beam (pinned and roller at its ends) on the
+//     foundation under a uniform load q: at midspan
+//     w = q/k·(1 − 2·cosh(λ/2)·cos(λ/2)/(cosh λ + cos λ)) and
+//     M = −q/β²·sinh(λ/2)·sin(λ/2)/(cosh λ + cos λ), which tend to
+//     5qL⁴/(384EI) and −qL²/8 as λ → 0;
+//   - a long beam under a counter-clockwise couple C at its middle: there
+//     θ = Cβ³/k and M = ±C/2 just left and right (M jumps by −C), and at
+//     ξ beyond it w = Cβ²/k·e^(−βξ)·sin βξ.
 func TestHetenyiClosedForms(t *testing.T) {
 	const k, P, C, c, a, settle, spring = 6.4e6, -8e4, 3e4, 2.0, 2.0, -5e-3, 4e6
 	ei := testE * testI
@@ -134,7 +145,42 @@ func TestHetenyiClosedForms(t *testing.T) {
 				{"M under the load", f.BendingMoment, -P / (4 * beta) * (math.Cosh(bl) - math.Cos(bl)) / d}}
 		}})
 	}
+	for _, bl := range []float64{0.05, 0.5, 1.9, 2.1, 4, 9} {
+		L := bl / beta
+		rows = append(rows, row{fmt.Sprintf("free beam, βL = %g, load at its end", bl), func() *Model {
+			m := groundModel(L, k)
+			m.PointLoads = []PointLoad{{X: 0, Transverse: P}}
+			return m
+		}, func(e *Exact) []want {
+			sh, ch, sn, cs := math.Sinh(bl), math.Cosh(bl), math.Sin(bl), math.Cos(bl)
+			return []want{{"w(0)", e.At(0, Right).Deflection, 2 * P * beta / k * (sh*ch - sn*cs) / (sh*sh - sn*sn)}}
+		}})
+	}
+	for _, bl := range []float64{0.5, 2, 5, 12} {
+		L := bl / beta
+		rows = append(rows, row{fmt.Sprintf("simply supported, βL = %g, uniform load", bl), func() *Model {
+			m := groundModel(L, k)
+			m.Supports = []Support{{X: 0, Kind: Pinned}, {X: L, Kind: Roller}}
+			m.DistributedLoad = []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, P}, {L, P}}}}
+			return m
+		}, func(e *Exact) []want {
+			f := e.At(L/2, Right)
+			d := math.Cosh(bl) + math.Cos(bl)
+			return []want{{"w at midspan", f.Deflection, P / k * (1 - 2*math.Cosh(bl/2)*math.Cos(bl/2)/d)},
+				{"M at midspan", f.BendingMoment, -P / (beta * beta) * math.Sinh(bl/2) * math.Sin(bl/2) / d}}
+		}})
+	}
 	long := 34 / beta
+	rows = append(rows, row{"long beam, couple at its middle", func() *Model {
+		m := groundModel(2*long, k)
+		m.PointLoads = []PointLoad{{X: long, Moment: C}}
+		return m
+	}, func(e *Exact) []want {
+		const xi = 1.3
+		return []want{{"θ under the couple", e.At(long, Right).Rotation, C * beta * beta * beta / k},
+			{"M just left", e.At(long, Left).BendingMoment, C / 2}, {"M just right", e.At(long, Right).BendingMoment, -C / 2},
+			{"w beyond it", e.At(long+xi, Right).Deflection, C * beta * beta / k * math.Exp(-beta*xi) * math.Sin(beta*xi)}}
+	}})
 	rows = append(rows, []row{
 		{"semi-infinite beam, load at its end", func() *Model {
 			m := groundModel(long, k)
