@@ -348,6 +348,73 @@ func TestPileWithSkinFriction(t *testing.T) {
 	}
 }
 
+// A bar on an elastic axial foundation, EA·u″ = kₐ·u (the load-transfer
+// equation of TestPileWithSkinFriction, α = (kₐ/EA)^½), solved here for two
+// more ends: held at x = 0 and pulled by P at L, u = P·sinh αx/(EA·α·cosh αL),
+// so the end moves P·tanh αL/(EA·α) and the support takes −P/cosh αL;
+// free at both ends and warmed by ΔT (free strain ε = α_T·ΔT), the bed
+// holds it back, u = ε·sinh α(x − L/2)/(α·cosh(αL/2)) and
+// N = EA·ε·(cosh α(x − L/2)/cosh(αL/2) − 1): no force at the ends,
+// −EA·ε·(1 − 1/cosh(αL/2)) at the middle, the full restraint EA·ε on a
+// long bar (derived here from the equation, the way a slab on subgrade
+// friction is treated; from memory). αL from 0.1 (series) to 40
+// (decaying exponentials). The exact solution gives them to round-off,
+// the default mesh within its stated accuracy.
+func TestBarOnAxialBedClosedForms(t *testing.T) {
+	const L, P, dT = 10.0, 1e5, 30.0
+	ea := testE * testA
+	eps := testα * dT
+	for _, aL := range []float64{0.1, 2.5, 40} {
+		alpha := aL / L
+		bed := []Foundation{{Start: 0, End: L, AxialModulus: alpha * alpha * ea}}
+		for _, c := range []struct {
+			name  string
+			model Model
+			u     func(x float64) float64
+			n     func(x float64) float64
+			react float64 // the axial reaction of the support at x = 0, if any
+		}{
+			{"held at x = 0, pulled at L", Model{Supports: []Support{{X: 0, Kind: AxialOnly}}, PointLoads: []PointLoad{{X: L, Axial: P}}},
+				func(x float64) float64 { return P * math.Sinh(alpha*x) / (ea * alpha * math.Cosh(aL)) },
+				func(x float64) float64 { return P * math.Cosh(alpha*x) / math.Cosh(aL) }, -P / math.Cosh(aL)},
+			{"free, warmed", Model{TemperatureChange: dT},
+				func(x float64) float64 { return eps * math.Sinh(alpha*(x-L/2)) / (alpha * math.Cosh(aL/2)) },
+				func(x float64) float64 { return ea * eps * (math.Cosh(alpha*(x-L/2))/math.Cosh(aL/2) - 1) }, 0},
+		} {
+			t.Run(fmt.Sprintf("%s, αL = %g", c.name, aL), func(t *testing.T) {
+				m := c.model
+				m.Segments, m.AxialOnly, m.Foundations = []Segment{testSegment(0, L)}, true, bed
+				e, err := SolveExact(&m)
+				if err != nil {
+					t.Fatal(err)
+				}
+				s := mustSolve(t, &m)
+				places := []float64{0, 0.1 * L, L / 4, L / 2, 0.8 * L, L}
+				var uScale, nScale float64 // the fields' largest magnitudes: at an end or the middle
+				for _, x := range places {
+					uScale, nScale = max(uScale, math.Abs(c.u(x))), max(nScale, math.Abs(c.n(x)))
+				}
+				for _, x := range places {
+					for name, f := range map[string]Fields{"exact": e.At(x, Right), "FE": s.At(x, Right)} {
+						tol := 1e-9
+						if name == "FE" {
+							tol = MeshAccuracy
+						}
+						if math.Abs(f.AxialDisplacement-c.u(x)) > tol*uScale || math.Abs(f.AxialForce-c.n(x)) > tol*nScale {
+							t.Errorf("%s at x = %g: u %.10g N %.10g, want %.10g %.10g", name, x, f.AxialDisplacement, f.AxialForce, c.u(x), c.n(x))
+						}
+					}
+				}
+				if len(m.Supports) > 0 {
+					if r := e.Reactions()[0].Force[Axial]; math.Abs(r-c.react) > 1e-9*P {
+						t.Errorf("exact reaction %.10g N, want %.10g", r, c.react)
+					}
+				}
+			})
+		}
+	}
+}
+
 // The exact solution does not care which basis a stretch takes: a modulus
 // a hair either side of the one where λ crosses groundSeriesLimit gives the
 // same fields to within the change in the modulus.
