@@ -699,6 +699,41 @@ func TestTooFineOverAFoundation(t *testing.T) {
 	}
 }
 
+// Two loads 0.01 mm apart on a ground beam (the ground_beam_foundation
+// model: EI = 7.68e8 N·m², k = 2.4e7 N/m², β = 0.297 /m) make an element of
+// that length between them, and on a foundation every node enters the
+// factorized equations: beside the bed's terms its stiffness 12·EI/h³ is
+// beyond their rounding, whatever the mesh, the default one included. The
+// refusal said "use fewer elements over the foundation, or leave the mesh
+// to Stave", which the model had done; it now names the two points and
+// what to do. A millimetre apart they still solve, FE as exact.
+func TestCloseItemsOverAFoundation(t *testing.T) {
+	ground := func(gap float64, elements int) *Model {
+		return &Model{
+			Segments:    []Segment{{Start: 0, End: 12, Section: Section{Area: 0.48, SecondMoment: 0.0256, FibreDistance: 0.4}, Material: Material{Elastic: 3e10}}},
+			Supports:    []Support{{X: 6, Kind: AxialOnly}},
+			Foundations: []Foundation{{Start: 0, End: 12, Modulus: 2.4e7}},
+			PointLoads:  []PointLoad{{X: 1.5, Transverse: -600e3}, {X: 1.5 + gap, Transverse: -1e3}, {X: 10.5, Transverse: -600e3}},
+			Mesh:        MeshSettings{Elements: elements},
+		}
+	}
+	for _, elements := range []int{0, 100, 2000} {
+		_, err := Solve(ground(1e-5, elements))
+		if err == nil || !strings.Contains(err.Error(), "from x = 1.5 m to 1.50001 m") || strings.Contains(err.Error(), "leave the mesh to Stave") {
+			t.Errorf("%d elements: got %v, want a refusal naming the stretch from 1.5 m to 1.50001 m", elements, err)
+		}
+	}
+	m := ground(1e-3, 0)
+	s := mustSolve(t, m)
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got, want := s.At(1.5, Right).Deflection, e.At(1.5, Right).Deflection; relErr(got, want) > 1e-6 {
+		t.Errorf("loads 1 mm apart: FE deflection %.9g m under them, exact %.9g", got, want)
+	}
+}
+
 // A simple span with a stiff bed under its first metre: the 0.5 % rule for
 // the shear force over the bed (constant in each element while the bed's
 // k·w changes it, with w sized by the span's largest deflection) asked for
