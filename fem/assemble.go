@@ -266,11 +266,13 @@ func pivotMessage(m *Model, nodes []float64, form Formulation, pe *band.PivotErr
 	}
 	x := nodes[node]
 	length := nodes[len(nodes)-1] - nodes[0]
+	// A piece that short on a foundation spoils the equations wherever the
+	// pivot that failed lies (the elimination carries its rounding along).
+	if a, b, ok := shortOnFoundation(m, nodes); ok {
+		from, to := quotePair(u, units.Position, a, b)
+		return fmt.Errorf("the %s equations over the elastic foundation are singular to working precision at the stretch from x = %s to %s, only %s long: every node on a foundation enters them, and items that close together (point loads, supports, ends of line loads or foundations) make a piece far too stiff beside the bed's; move them apart or, if they are one, make them one point", form.Problem(), from, to, quote(u, units.Dimension, b-a))
+	}
 	if k, ka := m.foundationAt(x); k > 0 || ka > 0 {
-		if a, b, ok := shortOnFoundation(m, nodes); ok {
-			from, to := quotePair(u, units.Position, a, b)
-			return fmt.Errorf("the %s equations over the elastic foundation are singular to working precision at the stretch from x = %s to %s, only %s long: every node on a foundation enters them, and items that close together (point loads, supports, ends of line loads or foundations) make a piece far too stiff beside the bed's; move them apart or, if they are one, make them one point", form.Problem(), from, to, quote(u, units.Dimension, b-a))
-		}
 		return fmt.Errorf("the %s equations over the elastic foundation near x = %s are singular to working precision: on a foundation every node of the mesh enters them (%d nodes here), and they grow ill-conditioned as the fourth power of the number of elements; use fewer elements over the foundation, or leave the mesh to Stave", form.Problem(), place(x), len(nodes))
 	}
 	for i := max(node-1, 0); i < min(node+1, len(nodes)-1); i++ {
