@@ -266,6 +266,12 @@ func pivotMessage(m *Model, nodes []float64, form Formulation, pe *band.PivotErr
 	}
 	x := nodes[node]
 	length := nodes[len(nodes)-1] - nodes[0]
+	// A piece that short on a foundation spoils the equations wherever the
+	// pivot that failed lies (the elimination carries its rounding along).
+	if a, b, ok := shortOnFoundation(m, nodes); ok {
+		from, to := quotePair(u, units.Position, a, b)
+		return fmt.Errorf("the %s equations over the elastic foundation are singular to working precision at the stretch from x = %s to %s, only %s long: every node on a foundation enters them, and items that close together (point loads, supports, ends of line loads or foundations) make a piece far too stiff beside the bed's; move them apart or, if they are one, make them one point", form.Problem(), from, to, quote(u, units.Dimension, b-a))
+	}
 	if k, ka := m.foundationAt(x); k > 0 || ka > 0 {
 		return fmt.Errorf("the %s equations over the elastic foundation near x = %s are singular to working precision: on a foundation every node of the mesh enters them (%d nodes here), and they grow ill-conditioned as the fourth power of the number of elements; use fewer elements over the foundation, or leave the mesh to Stave", form.Problem(), place(x), len(nodes))
 	}
@@ -276,6 +282,35 @@ func pivotMessage(m *Model, nodes []float64, form Formulation, pe *band.PivotErr
 		}
 	}
 	return fmt.Errorf("the %s stiffness matrix is singular to working precision near x = %s (pivot %s of diagonal %s): check for very soft springs next to stiff parts, or stiffnesses many orders of magnitude apart", form.Problem(), place(x), units.FormatG("%.3g", pe.Pivot), units.FormatG("%.3g", pe.Diagonal))
+}
+
+// shortOnFoundation finds the shortest stretch between neighbouring key
+// points of m (KeyPoints: loads, supports, breaks) that lies on a
+// foundation and is shorter than the default mesh lets an element there
+// be (elementData.shortestOnFoundation): every node on a foundation enters
+// the factorized equations, and such a piece is stiffer than the bed's
+// terms by more than their rounding can carry. No mesh can help it, since
+// every mesh has nodes at the key points. ok is false when there is none.
+func shortOnFoundation(m *Model, nodes []float64) (a, b float64, ok bool) {
+	keys := KeyPoints(m)
+	tol := mergeTolerance * m.Length()
+	isKey := func(x float64) bool { return math.Abs(keys[nearest(keys, x)]-x) <= tol }
+	shortest := math.Inf(1)
+	for i := range len(nodes) - 1 {
+		h, mid := nodes[i+1]-nodes[i], 0.5*(nodes[i]+nodes[i+1])
+		if h >= shortest || !isKey(nodes[i]) || !isKey(nodes[i+1]) {
+			continue
+		}
+		seg := m.Segments[m.SegmentAt(mid)]
+		d := elementData{sectionData: sectionData{
+			flexuralRigidity: seg.Material.Elastic * seg.Section.SecondMoment,
+			axialRigidity:    seg.Material.Elastic * seg.Section.Area}}
+		d.modulus, d.axialModulus = m.foundationAt(mid)
+		if h < d.shortestOnFoundation() {
+			a, b, shortest, ok = nodes[i], nodes[i+1], h, true
+		}
+	}
+	return a, b, ok
 }
 
 // shortStretch is the length, relative to the member, below which a stretch

@@ -192,7 +192,9 @@ func (p *Member) automaticCounts() ([][]int, string) {
 		return n, "automatic: no exact solution to size it from, so about 100 elements spread by length"
 	}
 	bar, beam := p.model.Formulations()
-	floored := false    // the rule asked for shorter elements than a foundation allows
+	// The rule asked the beam's or the bar's elements to be shorter than
+	// a foundation allows: its shear force, or its axial force, may miss.
+	var flooredBeam, flooredBar bool
 	unfollowed := false // a foundation too stiff for any mesh to follow (followable)
 	for k, e := range exacts {
 		scale := exactScales(e)
@@ -222,7 +224,8 @@ func (p *Member) automaticCounts() ([][]int, string) {
 				}
 				h := min(hBar, hBeam)
 				if h < floor && floor < piece.length {
-					h, floored = floor, true
+					h = floor
+					flooredBeam, flooredBar = flooredBeam || hBeam < floor, flooredBar || hBar < floor
 				}
 				n[j][i] = max(n[j][i], 1)
 				if h < piece.length {
@@ -240,8 +243,15 @@ func (p *Member) automaticCounts() ([][]int, string) {
 	if total <= maxAutomaticElements && unfollowed {
 		return n, "automatic, for fields within 0.5 % of the exact extremes but over a foundation too stiff for any mesh to follow, whose fields change within less than 200,000 elements could resolve: the elements there are few, and their finite element fields may miss the exact ones by as much as their size"
 	}
-	if total <= maxAutomaticElements && floored {
-		return n, "automatic, for fields within 0.5 % of the exact extremes but over a foundation, whose equations limit how short its elements may be: the shear force there may miss by more"
+	if total <= maxAutomaticElements && (flooredBeam || flooredBar) {
+		missed := "the shear force"
+		switch {
+		case flooredBeam && flooredBar:
+			missed = "the shear and axial forces"
+		case flooredBar:
+			missed = "the axial force"
+		}
+		return n, "automatic, for fields within 0.5 % of the exact extremes but over a foundation, whose equations limit how short its elements may be: " + missed + " there may miss by more"
 	}
 	if total <= maxAutomaticElements {
 		return n, "automatic, for fields within 0.5 % of the exact extremes"

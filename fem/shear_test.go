@@ -182,7 +182,10 @@ func TestShearNodalExactness(t *testing.T) {
 // (2 − Φ)EIθ/(L(1 + Φ)) at the other (the slope-deflection equations of the
 // shear-flexible beam, Przemieniecki, Theory of Matrix Structural
 // Analysis; checked by the unit-load method with ∫M·m/EI + ∫V·v/(κGA); from
-// memory). A propped cantilever under a uniform load q keeps its prop
+// memory); integrated along a load rising from 0 at x = 0 to q₀ at L, the
+// point load's moments give q₀L²(1/30 + Φ/24)/(1 + Φ) at x = 0 and
+// q₀L²(1/20 + Φ/24)/(1 + Φ) at L (qL²/30 and qL²/20 without shear, as
+// the beam tables give them). A propped cantilever under a uniform load q keeps its prop
 // R = (qL⁴/(8EI) + qL²/(2κGA))/(L³/(3EI) + L/(κGA)) (the cantilever's tip
 // deflections under q and under R cancel). Both solutions, for a stubby
 // beam (L = 0.6 m, Φ ≈ 1.7) and a slender one (L = 6 m, Φ ≈ 0.017).
@@ -219,6 +222,16 @@ func TestShearDeformationIndeterminate(t *testing.T) {
 				func() [2][2]float64 {
 					ma, mb := (4+phi)*ei*theta/(L*(1+phi)), (2-phi)*ei*theta/(L*(1+phi))
 					return [2][2]float64{{(ma + mb) / L, ma}, {-(ma + mb) / L, mb}}
+				}()},
+			{"fixed at both ends, triangular load", []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Fixed}},
+				func(m *Model) {
+					m.DistributedLoad = []DistributedLoad{{Direction: Transverse, Points: []LoadPoint{{0, 0}, {L, q}}}}
+				},
+				func() [2][2]float64 {
+					ma := -q * L * L * (1.0/30 + phi/24) / (1 + phi)
+					mb := q * L * L * (1.0/20 + phi/24) / (1 + phi)
+					ra := -q*L/6 + (ma+mb)/L
+					return [2][2]float64{{ra, ma}, {-q*L/2 - ra, mb}}
 				}()},
 			{"propped cantilever, uniform load", []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Roller}}, loadedUniformly(L, q),
 				[2][2]float64{{-q*L - prop, -q*L*L/2 - prop*L}, {prop, 0}}},
@@ -358,12 +371,18 @@ func TestCompareTimoshenkoDisplacement(t *testing.T) {
 //   - a beam fixed at x = 0 with a hinge at c and a roller at L, under a
 //     uniform load q, hangs the span beyond the hinge on it, F = q(L − c)/2,
 //     and deflects there by qc⁴/(8EI) + qc²/(2κGA) + Fc³/(3EI) + Fc/(κGA);
+//   - a member fixed at x = 0 and guided at L (free to deflect, held
+//     against turning) under a load P at L bends in double curvature,
+//     M = ±PL/2, and deflects there by PL³/(12EI) + PL/(κGA);
+//   - a cantilever on a pinned support with a rotational spring kᵣ turns
+//     there by PL/kᵣ under a tip load P, which the spring takes from the
+//     cross-section's rotation: w(L) = PL³/(3EI) + PL/(κGA) + PL²/kᵣ;
 //   - a cantilever whose inner half is an Euler–Bernoulli beam and whose
 //     outer half deforms in shear with half the I deflects under a tip
 //     load P by P(7L³/24 + 2·L³/24)/EI from bending (∫(L − x)²/EI over
 //     each half) and PL/(2κGA) from the shear of the outer half alone.
 func TestShearDeformationClosedForms(t *testing.T) {
-	const kappa, q, P, L, k, delta, dT = 5.0 / 6, -25e3, -40e3, 4.0, 5e7, -2e-3, 30.0
+	const kappa, q, P, L, k, kr, delta, dT = 5.0 / 6, -25e3, -40e3, 4.0, 5e7, 2e7, -2e-3, 30.0
 	ei := testE * testI
 	gka := testE / 2.6 * kappa * testA
 	a := L*L*L/(3*ei) + L/gka
@@ -406,6 +425,16 @@ func TestShearDeformationClosedForms(t *testing.T) {
 			c, f := L/4, q*3*L/4/2
 			return q*c*c*c*c/(8*ei) + q*c*c/(2*gka) + f*c*c*c/(3*ei) + f*c/gka
 		}()},
+		{"fixed and guided, load at the guided end", func() *Model {
+			return &Model{Segments: []Segment{shearSegment(0, L, kappa)}, Supports: []Support{{X: 0, Kind: Fixed}, {X: L, Kind: Guided}},
+				PointLoads: []PointLoad{{X: L, Transverse: P}}}
+		}, func(s Field, _ []Reaction) float64 { return s.At(L, Left).Deflection },
+			P * (L*L*L/(12*ei) + L/gka)},
+		{"cantilever on a rotational spring, tip load", func() *Model {
+			return &Model{Segments: []Segment{shearSegment(0, L, kappa)}, Supports: []Support{{X: 0, Kind: Pinned, Stiffness: [3]float64{Rotation: kr}}},
+				PointLoads: []PointLoad{{X: L, Transverse: P}}}
+		}, func(s Field, _ []Reaction) float64 { return s.At(L, Left).Deflection },
+			P * (L*L*L/(3*ei) + L/gka + L*L/kr)},
 		{"stepped cantilever, shear in the outer half", func() *Model {
 			inner, outer := testSegment(0, L/2), shearSegment(L/2, L, kappa)
 			inner.Material.Density = 0
