@@ -7,6 +7,7 @@ import (
 	"strings"
 	"testing"
 
+	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/test"
 
 	"stave/canvas"
@@ -249,4 +250,57 @@ func entriesWith(w *Window, k int, text string) []*escEntry {
 	es := w.ui.panel.entries
 	es[k].SetText(text)
 	return es
+}
+
+// A number typed into a field reached by Tab replaces what the field
+// held: 5 typed into an axial settlement of "0" gave 50 mm, and -12 into
+// a transverse force of "0" gave -120 kN.
+func TestAddFormByTabTypesOverTheFields(t *testing.T) {
+	for _, c := range []struct {
+		name, kind string
+		typed      []string // into the position and the fields after it, by Tab
+		check      func(m fem.Model) string
+	}{
+		{"support", "Support", []string{"4.5", "5", "7"}, func(m fem.Model) string {
+			s := m.Supports[len(m.Supports)-1]
+			if want := [3]float64{0.005, 0.007, 0}; !near(s.X, 4.5) || !near(s.Settlement[0], want[0]) || !near(s.Settlement[1], want[1]) || s.Settlement[2] != 0 {
+				return fmt.Sprintf("support at %g m with settlements %v m, want 4.5 m and %v m", s.X, s.Settlement, want)
+			}
+			return ""
+		}},
+		{"point load", "Point load", []string{"2", "3", "-12", "4"}, func(m fem.Model) string {
+			p := m.PointLoads[len(m.PointLoads)-1]
+			if !near(p.X, 2) || !near(p.Axial, 3e3) || !near(p.Transverse, -12e3) || !near(p.Moment, 4e3) {
+				return fmt.Sprintf("point load %+v, want at 2 m with 3 kN, -12 kN and 4 kN·m", p)
+			}
+			return ""
+		}},
+	} {
+		w, _ := newTestWindow(t, demoProject(t))
+		w.showAddForm()
+		cv := w.win.Canvas()
+		selects, _, _, _ := dialogWidgets(t, w)
+		selects[0].SetSelected(c.kind)
+		// Tab on from the choice of kind to the first field, the position.
+		for range 5 {
+			if _, ok := cv.Focused().(*escEntry); ok {
+				break
+			}
+			cv.FocusNext()
+		}
+		for i, s := range c.typed {
+			if i > 0 {
+				cv.FocusNext()
+			}
+			f, ok := cv.Focused().(*escEntry)
+			if !ok {
+				t.Fatalf("%s: Tab reached %T, not a field", c.name, cv.Focused())
+			}
+			test.Type(f, s)
+		}
+		cv.Focused().TypedKey(&fyne.KeyEvent{Name: fyne.KeyReturn})
+		if problem := c.check(w.Model()); problem != "" {
+			t.Errorf("%s typed by Tab: the model has %s", c.name, problem)
+		}
+	}
 }

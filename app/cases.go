@@ -533,9 +533,12 @@ const templateNote = "typical; use the factors your local code gives"
 type combinationTable struct {
 	cases  []string
 	trains []int // the project's trains that have a name, by index
-	grid   *fyne.Container
-	rows   []combinationRow
-	escape func() // what Escape in an entry does
+	// trainHeads are the headings of the trains' columns, which a
+	// refused factor is placed by.
+	trainHeads []string
+	grid       *fyne.Container
+	rows       []combinationRow
+	escape     func() // what Escape in an entry does
 }
 
 type combinationRow struct {
@@ -565,7 +568,8 @@ func newCombinationTable(m fem.Model, trains []moving.Train, escape func()) *com
 		t.grid.Add(heading(n))
 	}
 	for _, i := range t.trains {
-		t.grid.Add(heading("train " + trains[i].Name))
+		t.trainHeads = append(t.trainHeads, "train "+trains[i].Name)
+		t.grid.Add(heading(t.trainHeads[len(t.trainHeads)-1]))
 	}
 	for _, cb := range m.Combinations {
 		t.addRow(cb)
@@ -663,7 +667,7 @@ func (t *combinationTable) combinations() ([]fem.Combination, error) {
 			}
 		}
 		for j, e := range r.trains {
-			f, ok, err := factor(e, fmt.Sprintf("train %d", t.trains[j]+1))
+			f, ok, err := factor(e, t.trainHeads[j])
 			if err != nil {
 				return nil, err
 			}

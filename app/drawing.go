@@ -243,7 +243,8 @@ func (r *drawingRenderer) Layout(size fyne.Size) {
 func (r *drawingRenderer) MinSize() fyne.Size { return r.d.MinSize() }
 
 // Refresh rebuilds the scene from the window's current state; with the
-// nodal loads of a new solution, the selected element's panel too.
+// nodal loads of a new solution, the selected element's panel too, and
+// with a new automatic deflection scale, its label.
 func (r *drawingRenderer) Refresh() {
 	w := r.d.w
 	in := w.sceneInput()
@@ -254,7 +255,13 @@ func (r *drawingRenderer) Refresh() {
 			defer w.ui.showProperties()
 		}
 	}
+	before := r.d.scene
 	r.d.scene = canvas.Build(in, r.d.view)
+	// The automatic deflection scale follows the view: a zoom or a new
+	// size of the drawing changes it, and the label beside the slider says it.
+	if before != nil && before.Magnification != r.d.scene.Magnification && w.ui != nil {
+		defer w.ui.showMagnification()
+	}
 	r.objects = append([]fyne.CanvasObject{r.background}, drawScene(r.d.scene)...)
 	r.objects = append(r.objects, r.d.frame)
 	r.background.Refresh()

@@ -38,7 +38,7 @@ func newMember(length float64) fem.Model {
 // lengthening again is not an identity: undo is.
 func setLength(m *fem.Model, length float64) error {
 	if !(length > 0) || math.IsInf(length, 0) {
-		return fmt.Errorf("the member length must be a positive number; got %g m", length)
+		return fmt.Errorf("the member needs a positive length: its end must lie to the right of its start")
 	}
 	if len(m.Segments) == 0 {
 		*m = newMember(length)
@@ -129,7 +129,7 @@ func splitSegment(m *fem.Model, x float64) error {
 	i := m.SegmentAt(x)
 	s := m.Segments[i]
 	if x-s.Start < sameX || s.End-x < sameX {
-		return fmt.Errorf("x = %.4g m is already a segment end: pick a point inside a segment", x)
+		return fmt.Errorf("that point is already a segment end: pick a point inside a segment")
 	}
 	right := s
 	right.Start = x
@@ -191,11 +191,11 @@ func addLoadVertex(m *fem.Model, i int, x float64) (int, error) {
 	}
 	pts := m.DistributedLoad[i].Points
 	if x <= pts[0].X+sameX || x >= pts[len(pts)-1].X-sameX {
-		return 0, fmt.Errorf("x = %.4g m is not inside distributed load %d: add vertices between its ends", x, i+1)
+		return 0, fmt.Errorf("that point is not inside distributed load %d: add vertices between its ends", i+1)
 	}
 	k := sort.Search(len(pts), func(j int) bool { return pts[j].X >= x })
 	if math.Abs(pts[k].X-x) < sameX {
-		return 0, fmt.Errorf("distributed load %d already has a vertex at x = %.4g m", i+1, x)
+		return 0, fmt.Errorf("distributed load %d already has a vertex there", i+1)
 	}
 	p := fem.LoadPoint{X: x, Intensity: intensityAt(pts, x)}
 	out := append(append(append(make([]fem.LoadPoint, 0, len(pts)+1), pts[:k]...), p), pts[k:]...)

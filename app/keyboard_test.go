@@ -5,6 +5,7 @@ import (
 	"math"
 	"reflect"
 	"slices"
+	"strconv"
 	"testing"
 
 	"fyne.io/fyne/v2"
@@ -550,6 +551,42 @@ func TestTabScrollsTheFocusIntoSight(t *testing.T) {
 			if f := inside[i]; c.Focused() != f || !inSight(s, f.(fyne.CanvasObject)) {
 				t.Errorf("%s: Shift+Tab back to its %s left it out of sight", p.name, nameOf(f.(fyne.CanvasObject)))
 			}
+		}
+	}
+}
+
+// A form opens with the text of its first field selected, so that what
+// is typed replaces it: "wind" typed into a new load case's name read
+// "windcase 1", and 250 typed into the deflection limit read "250360.0".
+func TestFormsTypeOverTheirFirstField(t *testing.T) {
+	for _, c := range []struct {
+		name  string
+		open  func(w *Window)
+		typed string
+		got   func(w *Window) string
+		want  string
+	}{
+		{"a new load case", (*Window).addCase, "wind",
+			func(w *Window) string { m := w.Model(); return m.Cases[len(m.Cases)-1].Name }, "wind"},
+		{"a renamed load case", (*Window).renameCase, "dead",
+			func(w *Window) string { return w.Model().Cases[w.editCase].Name }, "dead"},
+		{"the deflection limit", (*Window).showCheckLimits, "250",
+			func(w *Window) string { return strconv.FormatFloat(w.project.View.DeflectionLimit, 'g', -1, 64) }, "250"},
+	} {
+		w, _ := openTestdata(t, "two_span_cases.json", laptop)
+		cv := w.win.Canvas()
+		c.open(w)
+		f := cv.Focused()
+		if f == nil {
+			t.Fatalf("%s: the form opened with nothing in focus", c.name)
+		}
+		test.Type(f, c.typed)
+		f.TypedKey(&fyne.KeyEvent{Name: fyne.KeyReturn})
+		if cv.Overlays().Top() != nil {
+			t.Fatalf("%s: Enter left the form open", c.name)
+		}
+		if got := c.got(w); got != c.want {
+			t.Errorf("%s: typing %q into the form gave %q, want %q", c.name, c.typed, got, c.want)
 		}
 	}
 }

@@ -1,8 +1,11 @@
 package app
 
 import (
+	"regexp"
 	"strings"
 	"testing"
+
+	"fyne.io/fyne/v2"
 
 	"stave/fem"
 	"stave/fem/units"
@@ -79,6 +82,43 @@ func TestTrainMessagesInWindowUnits(t *testing.T) {
 		mw.apply()
 		if !strings.Contains(mw.status.Text, c.want) {
 			t.Errorf("typed %s: the moving-loads window says %q, want it to say %q", c.typed, mw.status.Text, c.want)
+		}
+	}
+}
+
+// An edit the sketch tools refuse says so without a length in metres when
+// the window shows feet: splitting the demo member at its segment break
+// read "split the member at x = 9.84 ft: x = 3 m is already a segment end".
+func TestRefusedSketchEditsInWindowUnits(t *testing.T) {
+	metres := regexp.MustCompile(`[0-9] m\b`)
+	for _, c := range []struct {
+		name string
+		edit func(w *Window)
+		want string
+	}{
+		{"split at the segment break", func(w *Window) {
+			w.setTool(toolSplit)
+			click(w.draw, fyne.NewPos(w.draw.view.ToScreenX(w.Model().Segments[0].End), w.draw.scene.MemberY))
+		}, "already a segment end"},
+		{"vertex at the start of a line load", func(w *Window) {
+			w.addVertex(0, 0) // the load starts at 0.5 m
+		}, "not inside distributed load 1"},
+		{"member end dragged past its start", func(w *Window) {
+			w.setTool(toolMember)
+			y := w.draw.scene.MemberY
+			drag(w.draw, fyne.NewPos(w.draw.view.ToScreenX(1), y), fyne.NewPos(w.draw.view.ToScreenX(-1), y), 1)
+		}, "positive length"},
+	} {
+		w, _ := newTestWindow(t, demoProject(t))
+		w.setUnits(units.USCustomary)
+		before := w.Model()
+		c.edit(w)
+		got := w.status.Text
+		if !strings.Contains(got, c.want) || metres.MatchString(got) {
+			t.Errorf("%s in feet: the window says %q, want %q and no length in m", c.name, got, c.want)
+		}
+		if after := w.Model(); after.Length() != before.Length() || len(after.Segments) != len(before.Segments) {
+			t.Errorf("%s: the refused edit changed the member", c.name)
 		}
 	}
 }

@@ -1,6 +1,7 @@
 package app
 
 import (
+	"fmt"
 	"strings"
 	"testing"
 
@@ -177,5 +178,25 @@ func TestChecksHeaderStatesTheBalanceAsTheTextDoes(t *testing.T) {
 	}
 	if strings.Contains(first, " kN") {
 		t.Errorf("the checks list's first line gives the residual in kN: %q", first)
+	}
+}
+
+// The label beside the deflection scale says the automatic scale the
+// drawing uses after a zoom: zoomed out three steps on the demo, the
+// drawing read "deflection × 500" and the label still "×200.0 (auto)".
+func TestAutoDeflectionScaleFollowsTheZoom(t *testing.T) {
+	w, q := newTestWindow(t, demoProject(t))
+	finished(t, w, q)
+	w.draw.Refresh()
+	first := w.draw.scene.Magnification
+	for range 6 {
+		w.zoomCentre(1 / zoomStep)
+	}
+	now := w.draw.scene.Magnification
+	if now == first {
+		t.Fatalf("six zoom steps out left the automatic deflection scale at %g: the test needs it to change", now)
+	}
+	if got, want := w.ui.magnifyText.Text, fmt.Sprintf("×%s (auto)", units.FormatNumber(now)); got != want {
+		t.Errorf("after zooming out the drawing magnifies the deflection %g times and the label reads %q, want %q", now, got, want)
 	}
 }

@@ -124,7 +124,11 @@ func (w *Window) showConvergence() {
 		return l
 	}
 	table := widget.NewTextGrid()
-	table.SetText(w.convergenceText())
+	// The caution closes the text, on a line wider than the pane, and ran
+	// out of sight under the chart: it goes under the pane, wrapped.
+	table.SetText(strings.TrimSuffix(w.convergenceText(), "\n\nCaution: "+fem.Caution))
+	caution := wrapped("Caution: " + fem.Caution)
+	caution.Importance = widget.WarningImportance
 	// The table scrolls in its pane: its lines, wider than the room the
 	// chart leaves, ran on under the chart.
 	var left fyne.CanvasObject = container.NewScroll(table)
@@ -143,7 +147,7 @@ func (w *Window) showConvergence() {
 	}
 	content := container.NewBorder(
 		wrapped("Relative errors against the exact solution on meshes with 1, 2, 4, … elements between key points."),
-		nil, nil, right, left)
+		caution, nil, right, left)
 	d, _ := w.newDialog("Convergence study", content, choice{label: "Close"})
 	d.Resize(fyne.NewSize(1160, 520))
 	w.showDialog(d)

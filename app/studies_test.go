@@ -44,6 +44,16 @@ func TestConvergenceStudy(t *testing.T) {
 			t.Errorf("the convergence text lacks %q:\n%s", want, text)
 		}
 	}
+	// The dialog shows the caution whole, wrapped under the table, whose
+	// lines run past its pane: there it was cut at "must revi".
+	var whole bool
+	_, _, _, labels := dialogWidgets(t, w)
+	for _, l := range labels {
+		whole = whole || strings.Contains(l.Text, fem.Caution) && l.Wrapping == fyne.TextWrapWord && l.Visible()
+	}
+	if !whole {
+		t.Error("the convergence study's dialog shows no wrapped caution")
+	}
 	if err := w.writeConvergenceChart(&chart); err != nil || !bytes.HasPrefix(chart.Bytes(), []byte("\x89PNG")) {
 		t.Errorf("convergence chart: %v, starts %q", err, chart.Bytes()[:min(chart.Len(), 4)])
 	}

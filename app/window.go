@@ -471,7 +471,7 @@ func (w *Window) place(x float64) {
 func (w *Window) addVertex(load int, x float64) {
 	x = w.draw.snapX(w.draw.view.ToScreenX(x), canvas.Ref{Kind: canvas.DistributedLoad, Index: load})
 	var k int
-	err := w.apply(fmt.Sprintf("add a vertex to distributed load %d", load+1), func(m *fem.Model) error {
+	err := w.apply(fmt.Sprintf("add a vertex to distributed load %d at x = %s", load+1, w.position(x)), func(m *fem.Model) error {
 		var err error
 		k, err = addLoadVertex(m, load, x)
 		return err

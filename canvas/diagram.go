@@ -381,7 +381,9 @@ func (b *builder) stripExtremes(sd stripData, toY func(float64) float32) []label
 	}
 	var pairs []pair
 	for _, p := range []pair{{fe.peakHi, sd.exHi, !d.downPositive, true}, {fe.peakLo, sd.exLo, d.downPositive, false}} {
-		constant := p.fe == fe.peakLo && math.Abs(fe.peakHi.value-fe.peakLo.value) <= 1e-9*size
+		// A constant field is labelled once, at its largest value: its
+		// extremes may be the one point, so they are told apart by role.
+		constant := !p.upper && math.Abs(fe.peakHi.value-fe.peakLo.value) <= 1e-9*size
 		if !exact {
 			p.ex = p.fe
 		}
