@@ -43,10 +43,24 @@ func (e *LoadError) Error() string {
 	return fmt.Sprintf("%s cannot be opened (%d problems):\n", what, len(e.Problems)) + listProblems(e.Problems)
 }
 
+// MaxListedProblems is how many problems a message lists, one a line; it
+// counts the rest. A generated file can hold a problem in each of 100,000
+// items, and a message of 100,000 lines (12 MB) floods a terminal and
+// freezes a dialog while saying no more than its first lines do.
+const MaxListedProblems = 100
+
 func listProblems(problems []Problem) string {
-	lines := make([]string, len(problems))
-	for i, p := range problems {
+	n := min(len(problems), MaxListedProblems)
+	lines := make([]string, n, n+1)
+	for i, p := range problems[:n] {
 		lines[i] = "  - " + p.String()
+	}
+	if rest := len(problems) - n; rest > 0 {
+		noun := "problems"
+		if rest == 1 {
+			noun = "problem"
+		}
+		lines = append(lines, fmt.Sprintf("  - and %d more %s (the first %d are listed)", rest, noun, n))
 	}
 	return strings.Join(lines, "\n")
 }
