@@ -102,6 +102,12 @@ func replaceFile(path string, write func(io.Writer) error, backup bool) (err err
 	fail := func(step string, err error) error {
 		return fmt.Errorf("cannot save %s: %s: %w; the previous file is unchanged", shown, step, err)
 	}
+	// Renaming over a pipe, a device or a folder would put a file in its
+	// place: run by root, an export to a link to /dev/full replaced the
+	// device with a regular file.
+	if info, err := os.Stat(target); err == nil && !info.Mode().IsRegular() {
+		return fmt.Errorf("cannot save %s: it is %s, not a file, and is left as it is: choose a file name", shown, describeKind(info.Mode()))
+	}
 	dir, base := filepath.Dir(target), filepath.Base(target)
 	removeStaleTemporaries(dir, base)
 	var tmp *os.File

@@ -14,10 +14,13 @@ import (
 )
 
 // RateText writes an observed rate (or an effectivity) with two decimals, a
-// dash where there is none.
+// dash where there is none, and one that rounds to zero as 0.00, not -0.00.
 func RateText(r float64) string {
 	if math.IsNaN(r) || math.IsInf(r, 0) {
 		return "-"
+	}
+	if math.Abs(r) < 0.005 {
+		r = 0
 	}
 	return fmt.Sprintf("%.2f", r)
 }

@@ -282,3 +282,24 @@ func TestConvergenceTextSaysRoundOffForZero(t *testing.T) {
 		t.Errorf("zero errors should read round-off, the others as numbers:\n%s", text)
 	}
 }
+
+// A rate that rounds to zero reads 0.00, never -0.00 (stave converge on a
+// member on a bed of 1e-30 N/m² wrote -0.00 in its energy rate column).
+func TestRateTextWritesNoNegativeZero(t *testing.T) {
+	for _, c := range []struct {
+		rate float64
+		want string
+	}{
+		{-0.001, "0.00"},
+		{math.Copysign(0, -1), "0.00"},
+		{0.001, "0.00"},
+		{-0.006, "-0.01"},
+		{2, "2.00"},
+		{-1.5, "-1.50"},
+		{math.NaN(), "-"},
+	} {
+		if got := RateText(c.rate); got != c.want {
+			t.Errorf("RateText(%g) = %q, want %q", c.rate, got, c.want)
+		}
+	}
+}

@@ -1,6 +1,7 @@
 package report
 
 import (
+	"bytes"
 	"encoding/json"
 	"fmt"
 	"io"
@@ -15,11 +16,43 @@ import (
 	"stave/fem/units"
 )
 
-// WriteJSON writes v as indented JSON, as every command's --json does.
+// WriteJSON writes v as indented JSON, as every command's --json does,
+// with a zero of either sign written 0 (PlainZeros).
 func WriteJSON(w io.Writer, v any) error {
-	enc := json.NewEncoder(w)
+	var b bytes.Buffer
+	enc := json.NewEncoder(&b)
 	enc.SetIndent("", "  ")
-	return enc.Encode(v)
+	if err := enc.Encode(v); err != nil {
+		return err
+	}
+	_, err := w.Write(PlainZeros(b.Bytes()))
+	return err
+}
+
+// PlainZeros writes every number of the JSON document doc that
+// encoding/json wrote "-0" (a zero with its sign bit set, as a negated
+// zero carries) as "0", in place, and returns the shortened document: the
+// text reports write such a zero 0 (units.FormatNumber), and a document
+// that says -0 where the text says 0 reads as a different value. Texts
+// inside strings are left as they are.
+func PlainZeros(doc []byte) []byte {
+	out := doc[:0]
+	inString := false
+	for i := 0; i < len(doc); i++ {
+		c := doc[i]
+		switch {
+		case inString && c == '\\' && i+1 < len(doc):
+			out = append(out, c)
+			i++
+			c = doc[i] // the escaped character, kept as it is
+		case c == '"':
+			inString = !inString
+		case !inString && c == '-' && i+1 < len(doc) && doc[i+1] == '0' && (i+2 == len(doc) || !strings.ContainsRune("0123456789.eE", rune(doc[i+2]))):
+			continue
+		}
+		out = append(out, c)
+	}
+	return out
 }
 
 // The results document of `stave solve --json` (docs/json.md): its format

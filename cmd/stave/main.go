@@ -123,9 +123,16 @@ func main() {
 	os.Exit(run(os.Args[1:], os.Stdout, os.Stderr))
 }
 
-// run dispatches one command line and returns the exit status.
+// run dispatches one command line and returns the exit status: 1 when
+// standard output could not take what the command wrote (a full disk, a
+// closed pipe), which the text reports, writing with fmt.Fprint, do not
+// see themselves.
 func run(args []string, stdout, stderr io.Writer) int {
-	err := dispatch(args, stdout)
+	out := &outputWriter{w: stdout}
+	err := dispatch(args, out)
+	if out.err != nil && !errors.Is(err, out.err) {
+		err = fmt.Errorf("cannot write the output: %w", out.err)
+	}
 	if err == nil || errors.Is(err, helpShown) {
 		return 0
 	}
@@ -147,6 +154,22 @@ func run(args []string, stdout, stderr io.Writer) int {
 		return se.status
 	}
 	return 1
+}
+
+// outputWriter passes writes on to w until one fails, and keeps that
+// error: later writes return it without trying.
+type outputWriter struct {
+	w   io.Writer
+	err error
+}
+
+func (o *outputWriter) Write(p []byte) (int, error) {
+	if o.err != nil {
+		return 0, o.err
+	}
+	n, err := o.w.Write(p)
+	o.err = err
+	return n, err
 }
 
 func dispatch(args []string, stdout io.Writer) error {

@@ -16,7 +16,7 @@ import (
 	"stave/storage"
 )
 
-func load(t *testing.T, name string) fem.Model {
+func load(t testing.TB, name string) fem.Model {
 	t.Helper()
 	p, err := storage.Load("../../testdata/" + name)
 	if err != nil {

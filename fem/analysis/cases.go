@@ -398,7 +398,8 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 	if len(all) == 0 {
 		return results, make([]string, len(results))
 	}
-	results, start := c.arrangedColumns(a, k, all, results, opts)
+	solved := arrangements{}
+	results, start := c.arrangedColumns(a, k, all, results, opts, solved)
 	words := make([]string, len(results))
 	exact := cs.FixedExact != nil
 	field := func(fixed bool, j int) fem.Field {
@@ -467,7 +468,7 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 		}
 		on := c.worstArrangement(k, r, chord)
 		if !slices.Equal(on, bestOn) {
-			if got, ok := c.checkArrangement(a, k, on, r.Name, opts); ok {
+			if got, ok := c.checkArrangement(a, k, on, r.Name, opts, solved); ok {
 				r = got
 				if worse(r, best) {
 					best, bestOn = r, on
@@ -495,7 +496,7 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 				break
 			}
 			on = next
-			got, ok := c.checkArrangement(a, k, on, r.Name, opts)
+			got, ok := c.checkArrangement(a, k, on, r.Name, opts, solved)
 			if !ok {
 				break
 			}
@@ -519,7 +520,7 @@ func (c *Cases) patterned(a *Analysis, k int, results []check.Result, opts check
 // form, fem.CombinationSolutions.Within), each after the check before it
 // there. start holds per check of the new results the arrangement it is
 // from, nil for every span loaded.
-func (c *Cases) arrangedColumns(a *Analysis, k int, all []int, results []check.Result, opts check.Options) (_ []check.Result, start [][]int) {
+func (c *Cases) arrangedColumns(a *Analysis, k int, all []int, results []check.Result, opts check.Options, solved arrangements) (_ []check.Result, start [][]int) {
 	start = make([][]int, len(results))
 	roundOff := check.AxialRoundOff(&a.Model)
 	for _, span := range check.Columns(&a.Model) {
@@ -535,7 +536,7 @@ func (c *Cases) arrangedColumns(a *Analysis, k int, all []int, results []check.R
 		if -g.Value <= roundOff || slices.Equal(on, all) {
 			continue // no arrangement compresses it, or every span loaded is the worst and made no check
 		}
-		got, ok := c.arrangementChecks(a, k, on, opts)
+		got, ok := solved.checks(c, a, k, on, opts)
 		i := slices.IndexFunc(got, is)
 		if !ok || i < 0 {
 			continue
@@ -591,14 +592,37 @@ func (c *Cases) loaded(k int, g fem.Governing) []int {
 }
 
 // checkArrangement is the check named name of arrangementChecks, and
-// whether it was found.
-func (c *Cases) checkArrangement(a *Analysis, k int, on []int, name string, opts check.Options) (check.Result, bool) {
-	results, _ := c.arrangementChecks(a, k, on, opts)
+// whether it was found, solved once per arrangement in solved.
+func (c *Cases) checkArrangement(a *Analysis, k int, on []int, name string, opts check.Options, solved arrangements) (check.Result, bool) {
+	results, _ := solved.checks(c, a, k, on, opts)
 	i := slices.IndexFunc(results, func(r check.Result) bool { return r.Name == name })
 	if i < 0 {
 		return check.Result{}, false
 	}
 	return results[i], true
+}
+
+// arrangements are the checks of the arrangements of one combination
+// solved so far, by their loaded shares: the checks of many stretches that
+// one arrangement governs share its solve. Solving it again for each check
+// took minutes on a by-span case over 2,000 segments.
+type arrangements map[string]arranged
+
+type arranged struct {
+	results []check.Result
+	ok      bool
+}
+
+// checks are arrangementChecks(a, k, on, opts), solved the first time the
+// arrangement on is asked for.
+func (solved arrangements) checks(c *Cases, a *Analysis, k int, on []int, opts check.Options) ([]check.Result, bool) {
+	key := fmt.Sprint(on)
+	got, done := solved[key]
+	if !done {
+		got.results, got.ok = c.arrangementChecks(a, k, on, opts)
+		solved[key] = got
+	}
+	return got.results, got.ok
 }
 
 // arrangementChecks solves combination k with the shares on loaded and its

@@ -48,7 +48,8 @@ func equilibriumChecks(m *fem.Model, s *fem.Solution, e *fem.Exact, o Options) [
 	var out []Result
 	for i, d := range directions {
 		eq := balances[len(balances)-1] // the headline reactions
-		r := Result{Name: "Equilibrium, " + d.name, Code: CodeEquilibrium, Kind: Verification, Value: eq.Applied[i], Limit: -eq.Reactions[i],
+		// 0 - r rather than -r: no reaction reads +0, not -0.
+		r := Result{Name: "Equilibrium, " + d.name, Code: CodeEquilibrium, Kind: Verification, Value: eq.Applied[i], Limit: 0 - eq.Reactions[i],
 			Unit: d.unit, Exact: e != nil, Span: [2]float64{0, m.Length()}}
 		r.Status = Pass
 		var parts []string

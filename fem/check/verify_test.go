@@ -116,3 +116,18 @@ func TestEquilibriumOfLoadsThatBalance(t *testing.T) {
 		}
 	}
 }
+
+// A beam with no load along it has no axial reaction: the equilibrium
+// check's limit (the reactions' sum, negated to compare with the loads) is
+// +0, never -0, which the JSON wrote as "limit": -0. Before, the axial row
+// of every model without axial loads read -0.
+func TestEquilibriumLimitHasNoNegativeZero(t *testing.T) {
+	m := beam(4, []fem.Support{{X: 0, Kind: fem.Pinned}, {X: 4, Kind: fem.Roller}}, 0)
+	m.PointLoads = []fem.PointLoad{{X: 2, Transverse: -10e3}}
+	s, e := solveBoth(t, &m)
+	for _, r := range equilibriumChecks(&m, s, e, Options{}) {
+		if (r.Value == 0 && math.Signbit(r.Value)) || (r.Limit == 0 && math.Signbit(r.Limit)) {
+			t.Errorf("%s: value %g, limit %g; want no negative zero", r.Name, r.Value, r.Limit)
+		}
+	}
+}

@@ -260,7 +260,7 @@ func (p property) warning(name string, v float64, ref Entry, why string, entries
 		}
 	}
 	return fmt.Sprintf("%s: %s = %s is %s that of %s (%s)%s. %s",
-		name, p.name, p.show(v), times(v/p.of(ref)), kindName(ref), p.show(p.of(ref)), why, advice)
+		name, p.name, p.show(v), times(v, p.of(ref)), kindName(ref), p.show(p.of(ref)), why, advice)
 }
 
 // nearest finds the entry whose property is closest to v on a log scale, so
@@ -306,16 +306,34 @@ const (
 
 func kindName(e Entry) string { return "typical " + e.Kind }
 
-// times writes a ratio in words with three figures, in e-notation from 10⁶
-// on as strconv's shortest 'g' writes it (and as the values beside it are
-// written): "1000 times", "1/16 of", "1/1e+09 of".
-func times(ratio float64) string {
-	three := func(v float64) string {
-		rounded, _ := strconv.ParseFloat(fmt.Sprintf("%.3g", v), 64)
-		return strconv.FormatFloat(rounded, 'g', -1, 64)
+// times writes v/reference in words with three figures, in e-notation
+// from 10⁶ on as strconv's shortest 'g' writes it (and as the values beside
+// it are written): "1000 times", "1/16 of", "1/1e+09 of". A ratio beyond
+// the range of float64 is written from its logarithm: a density of 5e-324
+// kg/m³ is "1/1.59e+327 of" steel's, where v/reference underflows to 0 and
+// read "1/+Inf of".
+func times(v, reference float64) string {
+	ratio, prefix, suffix := v/reference, "", " times"
+	if ratio < 1 {
+		ratio, prefix, suffix = reference/v, "1/", " of"
 	}
-	if ratio >= 1 {
-		return three(ratio) + " times"
+	if math.IsInf(ratio, 0) {
+		// Log2, not Log10: math.Log10 of a subnormal number is off by
+		// 15 decades (Log10(5e-324) gave -307.95 with Go 1.26 on amd64, for
+		// -323.31; Log2 is exact).
+		return prefix + powerOfTen(math.Abs(math.Log2(v)-math.Log2(reference))*math.Ln2/math.Ln10) + suffix
 	}
-	return "1/" + three(1/ratio) + " of"
+	rounded, _ := strconv.ParseFloat(fmt.Sprintf("%.3g", ratio), 64)
+	return prefix + strconv.FormatFloat(rounded, 'g', -1, 64) + suffix
+}
+
+// powerOfTen writes 10^l, too large for a float64, as strconv's 'g' would
+// with three figures: "1.59e+327".
+func powerOfTen(l float64) string {
+	exponent := math.Floor(l)
+	mantissa, _ := strconv.ParseFloat(fmt.Sprintf("%.3g", math.Pow(10, l-exponent)), 64)
+	if mantissa >= 10 {
+		mantissa, exponent = mantissa/10, exponent+1
+	}
+	return fmt.Sprintf("%se+%02.0f", strconv.FormatFloat(mantissa, 'g', -1, 64), exponent)
 }

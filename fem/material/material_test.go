@@ -156,6 +156,10 @@ func TestFarFromTypicalIn(t *testing.T) {
 		// beside it are written (its comment promised no exponent below 10²¹).
 		{"file: GPa typed in a Pa field", base, with(210, 7850), []string{"E = 210.0 Pa is 1/1e+09 of that of typical steel (2.100e+11 Pa)", "GPa where Pa"}, nil},
 		{"file: MPa typed in a Pa field", base, with(210000, 7850), []string{"MPa where Pa"}, nil},
+		// The smallest positive float64 (IEEE 754 binary64, 2⁻¹⁰⁷⁴ ≈ 4.94e-324)
+		// as a density: 7850/4.94e-324 = 1.59e+327 (computed) is beyond float64,
+		// and the ratio read "1/+Inf of".
+		{"file: density at the bottom of the number range", base, with(210e9, 5e-324), []string{"is 1/1.59e+327 of that of typical steel"}, []string{"Inf"}},
 		{"file: psi typed in a Pa field", base, with(29e6, 7850), []string{"psi where Pa"}, nil},
 		{"no system: the file's units", units.System{}, with(210, 7850), []string{"E = 210.0 Pa", "GPa where Pa"}, nil},
 	}

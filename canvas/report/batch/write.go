@@ -202,7 +202,7 @@ func (j *jsonWriter) Member(m Member) error {
 		j.w.WriteString(",\n    ")
 	}
 	j.n++
-	_, err = j.w.Write(b)
+	_, err = j.w.Write(report.PlainZeros(b))
 	return err
 }
 
@@ -221,7 +221,7 @@ func (j *jsonWriter) Close(s Summary) error {
 		return err
 	}
 	j.w.WriteString("],\n")
-	j.w.Write(tail[2:]) // without its opening "{\n"
+	j.w.Write(report.PlainZeros(tail[2:])) // without its opening "{\n"
 	j.w.WriteString("\n")
 	return j.w.Flush()
 }
