@@ -10,7 +10,7 @@ import (
 	"stave/storage"
 )
 
-// stripTexts are the texts of scene s, joined.
+// stripTexts are the texts of scene s that are not empty, in order.
 func stripTexts(s *Scene) []string {
 	var out []string
 	for _, it := range s.Items {

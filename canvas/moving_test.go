@@ -86,13 +86,7 @@ func TestMovingPictureNamesTheSide(t *testing.T) {
 func TestMovingPicture(t *testing.T) {
 	in := movingFixture(t)
 	s, bands := BuildMoving(in, 1200, 700)
-	var texts []string
-	for _, it := range s.Items {
-		if it.Kind == Text {
-			texts = append(texts, it.Text)
-		}
-	}
-	all := strings.Join(texts, "\n")
+	all := strings.Join(stripTexts(s), "\n")
 	for _, want := range []string{"bending moment: envelope over", "influence line of the bending moment at x = 2.500 m",
 		"largest " + units.SI.Format(units.Moment, in.Worst[0].Value), "train “cart”"} {
 		if !strings.Contains(all, want) {
@@ -180,13 +174,7 @@ func TestMovingPictureLabelsTheSideOfAJump(t *testing.T) {
 	} {
 		in.Quantity = c.q
 		s, _ := BuildMoving(in, 1200, 700)
-		var texts []string
-		for _, it := range s.Items {
-			if it.Kind == Text {
-				texts = append(texts, it.Text)
-			}
-		}
-		all := strings.Join(texts, "\n")
+		all := strings.Join(stripTexts(s), "\n")
 		for _, want := range c.wants {
 			if !strings.Contains(all, want) {
 				t.Errorf("%s: no label %q among:\n%s", moving.EnvelopeQuantities[c.q], want, all)

@@ -369,6 +369,23 @@ func pageRows(page *Scene) map[float32][]Item {
 	return rows
 }
 
+// rowsOf are the texts of the first n cells of each row of rows (pageRows)
+// whose first cell reads first.
+func rowsOf(rows map[float32][]Item, first string, n int) [][]string {
+	var out [][]string
+	for _, row := range rows {
+		if row[0].Text != first {
+			continue
+		}
+		var texts []string
+		for _, it := range row[:min(len(row), n)] {
+			texts = append(texts, it.Text)
+		}
+		out = append(out, texts)
+	}
+	return out
+}
+
 // The extremes table says where each finite element extreme is, beside
 // the exact one's place: on 16 elements the finite element shear force of
 // two spans (twoSpans) is smallest, −22.5 kN, first at 3.5 m, not just
@@ -387,21 +404,13 @@ func TestSheetSaysWhereTheFEExtremesAre(t *testing.T) {
 		at := func(x float64) string { return f(units.Position, x) }
 		want := []string{"shear force V", f(units.Force, 25e3), "just right of " + at(4), f(units.Force, 22.5e3), "same",
 			f(units.Force, -25e3), "just left of " + at(4), f(units.Force, -22.5e3), at(3.5)}
-		found := false
-		for _, row := range pageRows(buildSheet(SheetInput{Input: in, Notes: SheetNotes{Version: "test"}})) {
-			if row[0].Text != want[0] {
-				continue
-			}
-			found = true
-			var got []string
-			for _, it := range row[:min(len(row), len(want))] {
-				got = append(got, it.Text)
-			}
+		found := rowsOf(pageRows(buildSheet(SheetInput{Input: in, Notes: SheetNotes{Version: "test"}})), want[0], len(want))
+		for _, got := range found {
 			if !slices.Equal(got, want) {
 				t.Errorf("%s: the shear force's extremes read %q, want %q", u.Name, got, want)
 			}
 		}
-		if !found {
+		if len(found) == 0 {
 			t.Errorf("%s: the sheet has no row of the shear force's extremes", u.Name)
 		}
 	}
@@ -427,21 +436,13 @@ func TestSheetSaysWhereTheFEExtremesAre(t *testing.T) {
 				hi, lo := place(e.XMax, e.SideMax), place(e.XMin, e.SideMin)
 				want := []string{quantityWords(e.Quantity), f(q, e.Max), hi, f(q, e.FEMax), feAt(e.FEXMax, e.FESideMax, hi),
 					f(q, e.Min), lo, f(q, e.FEMin), feAt(e.FEXMin, e.FESideMin, lo)}
-				found := false
-				for _, row := range rows {
-					if row[0].Text != want[0] {
-						continue
-					}
-					found = true
-					var got []string
-					for _, it := range row[:min(len(row), len(want))] {
-						got = append(got, it.Text)
-					}
+				found := rowsOf(rows, want[0], len(want))
+				for _, got := range found {
 					if !slices.Equal(got, want) {
 						t.Errorf("%s, %s: the extremes read %q, want %q", c.name, u.Name, got, want)
 					}
 				}
-				if !found {
+				if len(found) == 0 {
 					t.Errorf("%s, %s: no row of the %s", c.name, u.Name, want[0])
 				}
 			}

@@ -177,15 +177,24 @@ func TestDeflectionLeavesSettlementOut(t *testing.T) {
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
-			m := beam(tt.length, tt.supports, 0)
-			m.PointLoads = []fem.PointLoad{{X: tt.length, Transverse: -5e3}}
-			s, e := solveBoth(t, &m)
-			r := find(t, Run(&m, s, e, Options{}), tt.check)
-			if !near(r.Value, tt.want, 1e-9) || !near(r.FE, tt.want, 1e-9) {
-				t.Errorf("%s: exact %g, FE %g; want %g", tt.check, r.Value, r.FE, tt.want)
-			}
+			tipLoadDeflection(t, tt.length, tt.supports, tt.check, tt.want)
 		})
 	}
+}
+
+// tipLoadDeflection is the deflection check named check of a member of
+// the given length (beam) on supports under 5 kN down at its end, after
+// testing that the exact and the finite element values are want.
+func tipLoadDeflection(t *testing.T, length float64, supports []fem.Support, check string, want float64) Result {
+	t.Helper()
+	m := beam(length, supports, 0)
+	m.PointLoads = []fem.PointLoad{{X: length, Transverse: -5e3}}
+	s, e := solveBoth(t, &m)
+	r := find(t, Run(&m, s, e, Options{}), check)
+	if !near(r.Value, want, 1e-9) || !near(r.FE, want, 1e-9) {
+		t.Errorf("%s: exact %g, FE %g; want %g", check, r.Value, r.FE, want)
+	}
+	return r
 }
 
 // Theoretical effective length factors are the roots of the buckling
@@ -1136,13 +1145,7 @@ func TestDeflectionSaysWhatItMeasuresFrom(t *testing.T) {
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
-			m := beam(tt.length, tt.supports, 0)
-			m.PointLoads = []fem.PointLoad{{X: tt.length, Transverse: -5e3}}
-			s, e := solveBoth(t, &m)
-			r := find(t, Run(&m, s, e, Options{}), tt.check)
-			if !near(r.Value, tt.want, 1e-9) || !near(r.FE, tt.want, 1e-9) {
-				t.Errorf("%s: exact %g, FE %g; want %g", tt.check, r.Value, r.FE, tt.want)
-			}
+			r := tipLoadDeflection(t, tt.length, tt.supports, tt.check, tt.want)
 			for _, s := range tt.says {
 				if !strings.Contains(r.Message, s) {
 					t.Errorf("the message does not say %q: %s", s, r.Message)
