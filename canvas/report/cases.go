@@ -99,6 +99,9 @@ type EnvelopeAccuracyJSON struct {
 
 // Words say how far to trust a finite element envelope, in a sentence.
 func (a *EnvelopeAccuracyJSON) Words() string {
+	if analysis.RoundOff(a.Ratio) {
+		return "Its values are the finite element ones on this mesh: the combinations' FE extremes equal their exact ones (to round-off)."
+	}
 	return fmt.Sprintf("Its values are the finite element ones on this mesh: the combinations' FE extremes are within %s of a field's largest magnitude of their exact ones (worst: %s in %s).",
 		units.FormatG("%.3g %%", 100*a.Ratio), a.quantity.Info().Name, a.Combination)
 }

@@ -601,3 +601,31 @@ func TestLargeDisplacementFinding(t *testing.T) {
 		})
 	}
 }
+
+// The mesh line names the worst field only when a finite element extreme
+// is off the exact one by more than round-off: a fixed-fixed bar under a
+// uniform temperature change has a constant axial force −E·A·α·ΔT, which
+// linear bar elements reproduce exactly (closed form of the restrained bar,
+// from memory), and a field 2 % off is named.
+func TestMeshChoiceNamesAWorstFieldOnlyWhenOneIsOff(t *testing.T) {
+	a, err := Run(context.Background(), Request{Model: load(t, "fixed_fixed_thermal.json"), Checks: check.DefaultOptions()})
+	if err != nil || a.Solution == nil {
+		t.Fatalf("fixed_fixed_thermal: %v, %v", err, a.Err)
+	}
+	exact := fem.Summary{Exact: true, Extremes: []fem.Extreme{{Quantity: fem.QAxialDisplacement}, {Quantity: fem.QShearForce, Accuracy: 1e-13}}}
+	off := fem.Summary{Exact: true, Extremes: []fem.Extreme{{Quantity: fem.QAxialDisplacement}, {Quantity: fem.QShearForce, Accuracy: 0.02}}}
+	for _, c := range []struct {
+		name       string
+		sum        fem.Summary
+		want, lack string
+	}{
+		{"fixed_fixed_thermal", a.Summary(), "extremes equal the exact ones (to round-off)", "worst"},
+		{"round-off alone", exact, "extremes equal the exact ones (to round-off)", "worst"},
+		{"one field 2 % off", off, "up to 2 % of a field's largest magnitude from the exact ones (worst: shear force), beyond", "round-off"},
+	} {
+		got := MeshChoice(c.sum)
+		if !strings.Contains(got, c.want) || strings.Contains(got, c.lack) {
+			t.Errorf("%s: %q, want %q and no %q", c.name, got, c.want, c.lack)
+		}
+	}
+}

@@ -631,6 +631,9 @@ func MeshChoice(sum fem.Summary) string {
 	if !ok {
 		return fmt.Sprintf("The mesh is %s; with no exact solution its accuracy is not measured.", who)
 	}
+	if RoundOff(worst.Accuracy) {
+		return fmt.Sprintf("The mesh is %s; its finite element extremes equal the exact ones (to round-off).", who)
+	}
 	verdict := "within"
 	if worst.Accuracy > fem.MeshAccuracy {
 		verdict = "beyond"
@@ -638,6 +641,16 @@ func MeshChoice(sum fem.Summary) string {
 	return fmt.Sprintf("The mesh is %s; its finite element extremes are up to %s of a field's largest magnitude from the exact ones (worst: %s), %s the default mesh's %.3g %%.",
 		who, units.FormatG("%.3g %%", 100*worst.Accuracy), worst.Quantity, verdict, 100*fem.MeshAccuracy)
 }
+
+// roundOffAccuracy is the share of a field's largest magnitude up to which
+// a finite element extreme's distance from the exact one is round-off, the
+// size package fem treats as zero against a field.
+const roundOffAccuracy = 1e-9
+
+// RoundOff reports whether accuracy (fem.Extreme.Accuracy, a share of a
+// field's largest magnitude) is nil or round-off: the finite element
+// extremes then equal the exact ones, and no field is the worst.
+func RoundOff(accuracy float64) bool { return accuracy <= roundOffAccuracy }
 
 // headlineQuantities are the fields HeadlineText lists.
 var headlineQuantities = []fem.Quantity{fem.QDeflection, fem.QAxialForce, fem.QShearForce, fem.QBendingMoment, fem.QCombinedStress}
