@@ -15,6 +15,7 @@ import (
 	"stave/fem"
 	"stave/fem/analysis"
 	"stave/fem/moving"
+	"stave/fem/units"
 	"stave/storage"
 )
 
@@ -105,7 +106,7 @@ func (r *readout) showEnvelope(w *Window, x float64) bool {
 	r.rows = r.rows[:0]
 	for _, q := range fem.Quantities() {
 		unit := q.Info().Unit
-		value := func(f fem.Fields) string { return shortNumber(w.units.ToDisplay(unit, q.Of(&f))) }
+		value := func(f fem.Fields) string { return units.FormatNumber(w.units.ToDisplay(unit, q.Of(&f))) }
 		lo, hi := quantityRow(w.units, q, envelopeMin), quantityRow(w.units, q, envelopeMax)
 		lo[columnExact], hi[columnExact] = "—", "—"
 		if exact {

@@ -137,6 +137,23 @@ func TestReadoutTable(t *testing.T) {
 			t.Errorf("row %d reads %q", i, row)
 		}
 	}
+	// Values as small as the deflection this near the support are written
+	// as the reports and the drawing write them (units.FormatNumber), with
+	// a two-digit exponent: "4.258e-04", not "4.258e-4".
+	powers := 0
+	for _, row := range r.rows {
+		for _, v := range []string{row[columnExact], row[columnFE]} {
+			if _, exp, ok := strings.Cut(v, "e"); ok {
+				powers++
+				if len(strings.TrimLeft(exp, "+-")) != 2 {
+					t.Errorf("the readout writes %q, the reports a two-digit exponent", v)
+				}
+			}
+		}
+	}
+	if powers == 0 {
+		t.Errorf("no readout value near the support has an exponent: %q", r.rows)
+	}
 	if readoutHeadings[columnExact] != "exact" || columnExact > columnFE {
 		t.Errorf("the readout leads with %q, not the exact value", readoutHeadings[1])
 	}

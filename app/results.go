@@ -1,8 +1,6 @@
 package app
 
 import (
-	"strings"
-
 	"fyne.io/fyne/v2"
 	fynecanvas "fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/container"
@@ -181,13 +179,6 @@ func (r *readout) fitColumns() {
 	}
 }
 
-// shortNumber is units.FormatNumber with the exponent's zeros dropped
-// ("-3.208e-4"), so every value fits the column.
-func shortNumber(v float64) string {
-	s := units.FormatNumber(v)
-	return strings.NewReplacer("e-0", "e-", "e+0", "e", "e+", "e").Replace(s)
-}
-
 func (r *readout) show(w *Window) {
 	d := w.draw
 	a := w.result
@@ -214,9 +205,9 @@ func (r *readout) show(w *Window) {
 		unit := q.Info().Unit
 		exact := "—"
 		if a.Exact != nil {
-			exact = shortNumber(w.units.ToDisplay(unit, q.Of(&ex)))
+			exact = units.FormatNumber(w.units.ToDisplay(unit, q.Of(&ex)))
 		}
-		return exact, shortNumber(w.units.ToDisplay(unit, q.Of(&fe)))
+		return exact, units.FormatNumber(w.units.ToDisplay(unit, q.Of(&fe)))
 	})
 }
 
