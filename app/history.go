@@ -1,6 +1,9 @@
 package app
 
-import "stave/fem"
+import (
+	"stave/canvas"
+	"stave/fem"
+)
 
 // maxHistory bounds the undo stack so a long session does not hold every
 // model it ever had.
@@ -13,6 +16,11 @@ const maxHistory = 500
 type edit struct {
 	name          string // what the user did, for the status line ("move support 2")
 	before, after fem.Model
+	// selected is the item selected when the edit was made (the one a
+	// delete removed), in the editing form of case editCase; undo selects
+	// it again. None when the edit keeps no selection.
+	selected canvas.Ref
+	editCase int
 }
 
 // history is the undo/redo stack.

@@ -423,3 +423,27 @@ func TestShorteningCutsHingesAndFoundations(t *testing.T) {
 		t.Errorf("the shortened member does not validate: %v", err)
 	}
 }
+
+// Undoing a delete brings the item back selected, as it was when it was
+// deleted, so its properties show again; redo deletes it and leaves
+// nothing selected.
+func TestUndoDeleteSelectsTheItemAgain(t *testing.T) {
+	w, _ := newTestWindow(t, demoProject(t))
+	for _, r := range []canvas.Ref{{Kind: canvas.PointLoad}, {Kind: canvas.Support, Index: 1}} {
+		n := count(&w.project.Model, r.Kind)
+		w.selectItem(r)
+		w.deleteSelected()
+		if count(&w.project.Model, r.Kind) != n-1 || w.selected.Kind != canvas.None {
+			t.Fatalf("deleting %s left %d of %d, %v selected", describe(r), count(&w.project.Model, r.Kind), n, w.selected)
+		}
+		w.undo()
+		if count(&w.project.Model, r.Kind) != n || w.selected != r {
+			t.Errorf("undoing the delete of %s: %d of %d, %v selected", describe(r), count(&w.project.Model, r.Kind), n, w.selected)
+		}
+		w.redo()
+		if count(&w.project.Model, r.Kind) != n-1 || w.selected.Kind != canvas.None {
+			t.Errorf("redoing the delete of %s: %d of %d, %v selected", describe(r), count(&w.project.Model, r.Kind), n, w.selected)
+		}
+		w.undo()
+	}
+}

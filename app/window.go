@@ -198,7 +198,7 @@ func validate(m *fem.Model, u units.System) error {
 // model as it was and says why in the status line.
 func (w *Window) apply(name string, change func(m *fem.Model) error) error {
 	cand := w.project.Model.Clone()
-	editing := w.editCase // a change of the cases may edit another
+	editing, selected := w.editCase, w.selected // a change of the cases may edit another
 	if err := change(&cand); err != nil {
 		w.setStatus("%s: %v", name, err)
 		return err
@@ -210,7 +210,7 @@ func (w *Window) apply(name string, change func(m *fem.Model) error) error {
 	}
 	before := w.project.Model
 	w.setModel(cand)
-	w.hist.push(edit{name: name, before: lowerCase(before, editing), after: w.canonicalModel()})
+	w.hist.push(edit{name: name, before: lowerCase(before, editing), after: w.canonicalModel(), selected: selected, editCase: editing})
 	w.refitIfLengthChanged(before)
 	w.setStatus("%s", name)
 	return nil
@@ -267,7 +267,9 @@ func (w *Window) modelChanged() {
 
 func (w *Window) undo() {
 	if e, ok := w.hist.undo(); ok {
-		w.setModel(w.fromHistory(e.before))
+		m := w.fromHistory(e.before)
+		w.reselect(&m, e.selected, e.editCase)
+		w.setModel(m)
 		w.refitIfLengthChanged(e.after)
 		w.setStatus("undid %s", e.name)
 	} else {
@@ -277,11 +279,34 @@ func (w *Window) undo() {
 
 func (w *Window) redo() {
 	if e, ok := w.hist.redo(); ok {
-		w.setModel(w.fromHistory(e.after))
+		m := w.fromHistory(e.after)
+		w.reselect(&m, canvas.Ref{}, -1)
+		w.setModel(m)
 		w.refitIfLengthChanged(e.before)
 		w.setStatus("redid %s", e.name)
 	} else {
 		w.setStatus("nothing to redo")
+	}
+}
+
+// reselect sets the selection for m, the model an undo or redo restores:
+// r, the item selected when the edit was made, when m is in the editing
+// form of case editCase it was selected in (the item a delete removed is
+// back, and selected); else none when m has more or fewer items of the
+// kind selected, whose index may then name another item.
+func (w *Window) reselect(m *fem.Model, r canvas.Ref, editCase int) {
+	if r.Kind != canvas.None && r.Kind != canvas.CheckMark && w.editCase == editCase {
+		w.selected = r
+		return
+	}
+	now, s := &w.project.Model, w.selected
+	shifted := count(now, s.Kind) != count(m, s.Kind)
+	if s.Kind == canvas.LoadVertex {
+		shifted = len(now.DistributedLoad) != len(m.DistributedLoad) ||
+			s.Index < len(m.DistributedLoad) && len(now.DistributedLoad[s.Index].Points) != len(m.DistributedLoad[s.Index].Points)
+	}
+	if shifted {
+		w.selected = canvas.Ref{}
 	}
 }
 
