@@ -971,8 +971,12 @@ func isFinite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 // or fewer (5e-324, not 4.94066e-324), else x rounded to six.
 func fmtNumber(x float64) string { return fmtDigits(x, 6) }
 
-// fmtDigits is fmtNumber with up to digits significant digits.
+// fmtDigits is fmtNumber with up to digits significant digits; a negative
+// zero (a typed -0) prints as zero.
 func fmtDigits(x float64, digits int) string {
+	if x == 0 {
+		x = 0
+	}
 	s := strconv.FormatFloat(x, 'g', -1, 64)
 	if significantDigits(s) > digits {
 		s = strconv.FormatFloat(x, 'g', digits, 64)

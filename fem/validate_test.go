@@ -40,6 +40,9 @@ func TestValidate(t *testing.T) {
 		{"zero length segment", func(m *Model) { m.Segments[1].End = 1 }, place(SegmentItem, 1, EndProperty), "segment 2 runs from x = 1.0 m to x = 1.0 m"},
 		{"negative E", func(m *Model) { m.Segments[0].Material.Elastic = -2e11 }, place(SegmentItem, 0, ElasticProperty), "segment 1: Young's modulus E is -2e+11 Pa: it must be positive"},
 		{"zero area", func(m *Model) { m.Segments[0].Section.Area = 0 }, place(SegmentItem, 0, AreaProperty), "the area A is 0.0 m²"},
+		// A typed -0 is echoed as zero, not "-0.0 m²".
+		{"negative zero area", func(m *Model) { m.Segments[0].Section.Area = math.Copysign(0, -1) }, place(SegmentItem, 0, AreaProperty), "segment 1: the area A is 0.0 m²: it must be positive"},
+		{"negative zero length", func(m *Model) { m.Segments[0].Start, m.Segments[0].End = math.Copysign(0, -1), math.Copysign(0, -1) }, place(SegmentItem, 0, EndProperty), "segment 1 runs from x = 0.0 m to x = 0.0 m"},
 		{"zero I", func(m *Model) { m.Segments[1].Section.SecondMoment = 0 }, place(SegmentItem, 1, SecondMomentProperty), "segment 2: the second moment of area I"},
 		{"negative c", func(m *Model) { m.Segments[1].Section.FibreDistance = -0.1 }, place(SegmentItem, 1, FibreDistanceProperty), "extreme fibre distance c is -0.1 m"},
 		{"NaN E", func(m *Model) { m.Segments[0].Material.Elastic = nan }, place(SegmentItem, 0, ElasticProperty), "is NaN: enter a finite value in Pa"},
