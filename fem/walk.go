@@ -630,6 +630,7 @@ func (e *Exact) stretchRanges() [][quantityCount][2]extremum {
 	e.rangesOnce.Do(func() {
 		e.ranges = make([][quantityCount][2]extremum, len(e.stretches))
 		var v Interval
+		v.closed.memo = make(map[float64]Fields)
 		for j := range e.stretches {
 			s := &e.stretches[j]
 			s.interval(0, 1, s.start, s.end, &v)
