@@ -53,8 +53,8 @@ type closedInterval struct {
 	t0, span float64       // ξ ∈ [0, 1] is t = t0 + span·ξ of the stretch
 	samples  []Fields      // the fields at ξ = i/n, i = 0…n, once taken
 	// memo holds the fields read at each ξ since the interval was set,
-	// where it has one (Exact.stretchRanges' own interval alone: an
-	// interval that is copied must not share it).
+	// where it has one (memoInterval's alone: an interval that is copied
+	// must not share it).
 	memo map[float64]Fields
 }
 
