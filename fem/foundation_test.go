@@ -946,9 +946,10 @@ func BenchmarkGroundBeamDefaultMesh(b *testing.B) {
 }
 
 // The ground beam of BenchmarkGroundBeamDefaultMesh under n equal point
-// loads spread evenly along it (a hostile input: 50,000 of them took
-// `stave solve` over 20 s, nearly all of it in the exact solution's
-// extremes, about a thousand closed-form readings per stretch).
+// loads spread evenly along it (a hostile input: under 20,000 of them
+// `stave solve` took 6 s, nearly all of it in the exact solution's
+// extremes, about a thousand closed-form readings per stretch; see
+// "Many point loads on a foundation" in docs/performance.md).
 func BenchmarkGroundBeamManyLoads(b *testing.B) {
 	for _, n := range []int{1000, 4000} {
 		b.Run(fmt.Sprintf("loads=%d", n), func(b *testing.B) {
