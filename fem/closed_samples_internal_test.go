@@ -53,3 +53,56 @@ func TestClosedSamplesOfAStretchAreBounded(t *testing.T) {
 		})
 	}
 }
+
+// TestStretchRangesReadAlone: the stretches' ranges are worked out on
+// intervals that keep their closed-form readings (closedRead), in two
+// halves at once from parallelStretches stretches on. Each range must be
+// the one a fresh interval that keeps nothing finds for its stretch alone,
+// to the bit: a reading kept from another stretch, or another quantity's
+// search steered by one, would move it.
+func TestStretchRangesReadAlone(t *testing.T) {
+	const L, n = 12.0, parallelStretches + 88
+	m := groundModel(L, 2.4e7)
+	m.Gravity = [2]float64{0, -9.80665}
+	for i := range n {
+		// Uneven places and sizes, so that no two stretches are alike.
+		x := L * (float64(i) + 0.5 + 0.3*math.Sin(float64(i))) / n
+		m.PointLoads = append(m.PointLoads, PointLoad{X: x, Axial: 10 * float64(i%7), Transverse: -1e3 * (1 + float64(i%5))})
+	}
+	e, err := SolveExact(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(e.stretches) < parallelStretches {
+		t.Fatalf("%d stretches: the test needs %d or more", len(e.stretches), parallelStretches)
+	}
+	ranges := e.stretchRanges()
+	closed := 0
+	for j := range e.stretches {
+		s := &e.stretches[j]
+		var v Interval
+		s.interval(0, 1, s.start, s.end, &v)
+		if v.closed.stretch != nil {
+			closed++
+		}
+		for q := range Quantity(quantityCount) {
+			var want [2]extremum
+			v.rangeOf(q, &want)
+			if got := ranges[j][q]; got != want {
+				t.Fatalf("stretch %d, %v: range %v, alone %v", j, q, got, want)
+			}
+		}
+		kept := memoInterval()
+		e.stretchInterval(j, ranges, kept)
+		for _, sign := range []float64{1, -1} {
+			wl, wh := v.fibreRange(sign)
+			gl, gh := kept.fibreRange(sign)
+			if gl != wl || gh != wh {
+				t.Fatalf("stretch %d, fibre %v: range %v %v, alone %v %v", j, sign, gl, gh, wl, wh)
+			}
+		}
+	}
+	if closed < parallelStretches {
+		t.Fatalf("%d stretches in closed form: the test needs %d or more", closed, parallelStretches)
+	}
+}

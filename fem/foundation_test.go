@@ -945,6 +945,31 @@ func BenchmarkGroundBeamDefaultMesh(b *testing.B) {
 	benchSummarize(b, m)
 }
 
+// The ground beam of BenchmarkGroundBeamDefaultMesh under n equal point
+// loads spread evenly along it (a hostile input: under 20,000 of them
+// `stave solve` took 6 s, nearly all of it in the exact solution's
+// extremes, about a thousand closed-form readings per stretch; see
+// "Many point loads on a foundation" in docs/performance.md).
+func BenchmarkGroundBeamManyLoads(b *testing.B) {
+	for _, n := range []int{1000, 4000} {
+		b.Run(fmt.Sprintf("loads=%d", n), func(b *testing.B) {
+			seg := Segment{Start: 0, End: 12, Section: Section{Area: 0.48, SecondMoment: 0.0256, FibreDistance: 0.4},
+				Material: Material{Elastic: 3e10, Density: 2400}}
+			m := &Model{
+				Segments:    []Segment{seg},
+				Supports:    []Support{{X: 6, Kind: AxialOnly}},
+				Foundations: []Foundation{{Start: 0, End: 12, Modulus: 2.4e7}},
+				Gravity:     [2]float64{0, -9.80665},
+				Mesh:        MeshSettings{Elements: 600},
+			}
+			for i := range n {
+				m.PointLoads = append(m.PointLoads, PointLoad{X: 12 * (float64(i) + 0.5) / float64(n), Transverse: -1e3})
+			}
+			benchSummarize(b, m)
+		})
+	}
+}
+
 // Away from a load the fields of a beam on a foundation decay as
 // e^(−β·x) (Hetényi, Beams on Elastic Foundation, 1946, the infinite beam,
 // from memory), and so does the load the bed leaves, q − k·w, which sizes

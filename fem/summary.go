@@ -295,8 +295,9 @@ func (e *Exact) ownExtremes() *extremes {
 }
 
 // exactExtremes are the extremes of e, stretch by stretch in closed form
-// (Exact.EachInterval, whose ranges the comparison, the checks and the
-// drawing read too). A second pass takes values within extremeTie of
+// (the stretches' ranges, Exact.stretchRanges, which the comparison, the
+// checks and the drawing read too; with the fibres' ranges, in two halves
+// at once from parallelStretches stretches on). A second pass takes values within extremeTie of
 // each field's largest magnitude as ties, so that of the supports where a
 // deflection is zero to round-off the first is named, as the finite
 // element walk names it. The second pass takes the points the first
@@ -305,9 +306,16 @@ func (e *Exact) ownExtremes() *extremes {
 // the summary.
 func exactExtremes(e *Exact) *extremes {
 	takes := make([]stretchTakes, len(e.stretches))
+	ranges := e.stretchRanges()
+	inHalves(len(takes), func(from, to int) {
+		v := memoInterval()
+		for j := from; j < to; j++ {
+			e.stretchInterval(j, ranges, v)
+			takes[j].of(v)
+		}
+	})
 	first := newExtremes()
-	for j, v := range e.EachInterval() {
-		takes[j].of(v)
+	for j := range takes {
 		takes[j].into(first)
 	}
 	second := newExtremes()

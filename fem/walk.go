@@ -611,14 +611,19 @@ func (e *Exact) EachInterval() iter.Seq2[int, *Interval] {
 		ranges := e.stretchRanges()
 		var v Interval
 		for j := range e.stretches {
-			s := &e.stretches[j]
-			s.interval(0, 1, s.start, s.end, &v)
-			v.ranges, v.known = ranges[j], allRanges
+			e.stretchInterval(j, ranges, &v)
 			if !yield(j, &v) {
 				return
 			}
 		}
 	}
+}
+
+// stretchInterval sets v to stretch j of e with its ranges.
+func (e *Exact) stretchInterval(j int, ranges [][quantityCount][2]extremum, v *Interval) {
+	s := &e.stretches[j]
+	s.interval(0, 1, s.start, s.end, v)
+	v.ranges, v.known = ranges[j], allRanges
 }
 
 // allRanges has the bit of every quantity in Interval.known.
@@ -629,16 +634,50 @@ const allRanges = 1<<quantityCount - 1
 func (e *Exact) stretchRanges() [][quantityCount][2]extremum {
 	e.rangesOnce.Do(func() {
 		e.ranges = make([][quantityCount][2]extremum, len(e.stretches))
-		var v Interval
-		for j := range e.stretches {
-			s := &e.stretches[j]
-			s.interval(0, 1, s.start, s.end, &v)
-			for q := range Quantity(quantityCount) {
-				v.rangeOf(q, &e.ranges[j][q])
+		inHalves(len(e.stretches), func(from, to int) {
+			v := memoInterval()
+			for j := from; j < to; j++ {
+				s := &e.stretches[j]
+				s.interval(0, 1, s.start, s.end, v)
+				for q := range Quantity(quantityCount) {
+					v.rangeOf(q, &e.ranges[j][q])
+				}
 			}
-		}
+		})
 	})
 	return e.ranges
+}
+
+// memoInterval is an interval that keeps its closed-form readings
+// (closedRead): for one goroutine's own use, never to be copied.
+func memoInterval() *Interval {
+	v := new(Interval)
+	v.closed.memo = make(map[float64]Fields)
+	return v
+}
+
+// parallelStretches is the number of stretches from which the exact
+// solution's ranges are worked out in two halves at once: a stretch on a
+// foundation takes tens of microseconds or more (a few hundred closed-form
+// readings), far more than a goroutine costs.
+const parallelStretches = 512
+
+// inHalves runs work on the stretches from ≤ j < to, for every j < n: from
+// parallelStretches on, the second half on a second goroutine. Each
+// stretch's work stands alone, so the answer is the same to the bit on any
+// number of cores.
+func inHalves(n int, work func(from, to int)) {
+	if n < parallelStretches {
+		work(0, n)
+		return
+	}
+	done := make(chan struct{})
+	go func() {
+		work(n/2, n)
+		close(done)
+	}()
+	work(0, n/2)
+	<-done
 }
 
 // Elements returns the elements from ≤ i < to of s, in order along the
