@@ -307,13 +307,33 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 				v.add(Place{Item: it, Property: FactorCaseProperty, Vertex: f}, fmt.Sprintf("combination %q takes load case %q twice: give each case one factor", cb.Name, m.Cases[cf.Case].Name))
 			}
 			used[cf.Case] = true
-			if !isFinite(cf.Factor) {
-				v.add(Place{Item: it, Property: FactorProperty, Vertex: f}, fmt.Sprintf("combination %q, factor %d is %v: enter a finite number", cb.Name, f+1, cf.Factor))
-			}
+			v.factor(Place{Item: it, Property: FactorProperty, Vertex: f}, fmt.Sprintf("combination %q, factor %d", cb.Name, f+1), cf.Factor)
+		}
+		for _, tf := range cb.Trains {
+			v.factor(Place{Item: it, Property: FactorsProperty}, fmt.Sprintf("combination %q, the factor on moving load train %d", cb.Name, tf.Train+1), tf.Factor)
 		}
 		if len(cb.Factors) > 0 && appliesNothing(cb) {
 			v.add(Place{Item: it, Property: FactorsProperty}, fmt.Sprintf("combination %q applies no load: every factor is 0 (its envelope would be zero everywhere and govern nothing): give a case a factor other than 0, or delete the combination", cb.Name))
 		}
+	}
+}
+
+// MaxFactor is the largest factor, in size, a combination takes on a load
+// case or a moving load train. Results grow with the factor and the strain
+// energy with its square, which overflows float64 (1.8e308) past about
+// 1e150 times the energy of ordinary loads: a case factor of 1e300 was
+// refused by the solve, while a train's was taken and gave deflections of
+// 1e300 mm. Factors in codes are a few units.
+const MaxFactor = 1e150
+
+// factor checks one factor of a combination, what naming it: finite and
+// at most MaxFactor in size.
+func (v *validator) factor(at Place, what string, f float64) {
+	switch {
+	case !isFinite(f):
+		v.add(at, fmt.Sprintf("%s is %v: enter a finite number", what, f))
+	case math.Abs(f) > MaxFactor:
+		v.add(at, fmt.Sprintf("%s is %s, larger in size than the %s Stave takes (results grow with the factor, and their squares would overflow floating point): enter the factor your local code gives", what, fmtNumber(f), fmtNumber(MaxFactor)))
 	}
 }
 

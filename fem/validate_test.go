@@ -385,18 +385,6 @@ func keyPointModel(kind string, n int) *Model {
 // displacement in Z)". One factor other than 0, on a case or on a moving
 // load train, is a load.
 func TestValidateCombinationOfZeroFactors(t *testing.T) {
-	withCases := func(m *Model, factors ...float64) {
-		m.PointLoads, m.DistributedLoad = nil, nil
-		m.Cases = []LoadCase{
-			{Name: "permanent", PointLoads: []PointLoad{{X: 1.5, Transverse: -1e3}}},
-			{Name: "imposed", PointLoads: []PointLoad{{X: 2, Transverse: -1e3}}},
-		}
-		cb := Combination{Name: "Z"}
-		for k, f := range factors {
-			cb.Factors = append(cb.Factors, CaseFactor{Case: k, Factor: f})
-		}
-		m.Combinations = []Combination{cb}
-	}
 	checkValidation(t, []validationCase{
 		{"every factor 0", func(m *Model) { withCases(m, 0, 0) }, place(CombinationItem, 0, FactorsProperty), `combination "Z" applies no load: every factor is 0`},
 	})
@@ -414,6 +402,55 @@ func TestValidateCombinationOfZeroFactors(t *testing.T) {
 		c.edit(m)
 		if err := m.Validate(); err != nil {
 			t.Errorf("%s: refused: %v", c.name, err)
+		}
+	}
+}
+
+// withCases moves m's loads into two cases, "permanent" and "imposed",
+// and combines them in one combination "Z" with the factors given, in turn.
+func withCases(m *Model, factors ...float64) {
+	m.PointLoads, m.DistributedLoad = nil, nil
+	m.Cases = []LoadCase{
+		{Name: "permanent", PointLoads: []PointLoad{{X: 1.5, Transverse: -1e3}}},
+		{Name: "imposed", PointLoads: []PointLoad{{X: 2, Transverse: -1e3}}},
+	}
+	cb := Combination{Name: "Z"}
+	for k, f := range factors {
+		cb.Factors = append(cb.Factors, CaseFactor{Case: k, Factor: f})
+	}
+	m.Combinations = []Combination{cb}
+}
+
+// Factors beyond sense are refused alike on cases and on trains: a case
+// factor of 1e300 was refused (by the solve, its results overflowing)
+// while a train's factor of 1e300 was taken and gave deflections of about
+// 1e300 mm. Up to MaxFactor in size both are taken.
+func TestValidateFactorSize(t *testing.T) {
+	train := func(f float64) func(m *Model) {
+		return func(m *Model) {
+			withCases(m, 1.35, 1.5)
+			m.Combinations[0].Trains = []TrainFactor{{Train: 0, Factor: 1}, {Train: 1, Factor: f}}
+		}
+	}
+	caseFactor := Place{Item: Item{Kind: CombinationItem}, Property: FactorProperty, Vertex: 1}
+	checkValidation(t, []validationCase{
+		{"case factor 1e300", func(m *Model) { withCases(m, 1.35, 1e300) }, caseFactor, `combination "Z", factor 2 is 1e+300, larger in size than the 1e+150 Stave takes`},
+		{"case factor -1e300", func(m *Model) { withCases(m, 1.35, -1e300) }, caseFactor, `combination "Z", factor 2 is -1e+300, larger in size`},
+		{"case factor just over the most", func(m *Model) { withCases(m, 1.35, math.Nextafter(MaxFactor, math.Inf(1))) }, caseFactor, "larger in size than the 1e+150"},
+		{"case factor infinite", func(m *Model) { withCases(m, 1.35, math.Inf(-1)) }, caseFactor, `combination "Z", factor 2 is -Inf: enter a finite number`},
+		{"train factor 1e300", train(1e300), place(CombinationItem, 0, FactorsProperty), `combination "Z", the factor on moving load train 2 is 1e+300, larger in size than the 1e+150 Stave takes`},
+		{"train factor -1e300", train(-1e300), place(CombinationItem, 0, FactorsProperty), `moving load train 2 is -1e+300, larger in size`},
+		{"train factor NaN", train(math.NaN()), place(CombinationItem, 0, FactorsProperty), `moving load train 2 is NaN: enter a finite number`},
+	})
+	for name, edit := range map[string]func(m *Model){
+		"case factors of the most": func(m *Model) { withCases(m, MaxFactor, -MaxFactor) },
+		"train factor of the most": train(MaxFactor),
+		"train factor of 0":        train(0),
+	} {
+		m := validModel()
+		edit(m)
+		if err := m.Validate(); err != nil {
+			t.Errorf("%s: refused: %v", name, err)
 		}
 	}
 }
