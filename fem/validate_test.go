@@ -139,9 +139,12 @@ func TestValidateHostileInput(t *testing.T) {
 		// 7.08 GB; 4,294,967,296 / 23,600 = 181,990 key points fit.
 		{"300,000 point loads", func(m *Model) { m.PointLoads = manyPointLoads(300_000, 3) }, place(ModelItem, -1, NoProperty),
 			"the model would need at least 10.0 GB of memory for its 3e+05 key points (ends and breaks of segments, supports, point loads and load points), more than the 4.3 GB allowed: use fewer supports, point loads and load points, or split the member into several models (up to about 1.29e+05 key points fit)"},
-		// Each load case keeps its own solution, so what fits for one case
-		// (1.29e+05 key points, the row above) is shared among 1,000 cases:
-		// 129 key points (it once said the one case's figure).
+		// Each load case keeps its own solution (without combinations, each
+		// case alone is one), so what fits for one case (1.29e+05 key points,
+		// the row above) is shared among 1,000 cases: 129 key points (it
+		// once said the one case's figure). Per key point 1,000 × 32,800 B,
+		// and 4 × (100 + 999 × 60 + 1,000 × 40) B for its element:
+		// 4,294,967,296 / 33,200,160 = 129.
 		{"1,000 load cases of 1,000 point loads", func(m *Model) {
 			loads := manyPointLoads(1000, 3)
 			m.PointLoads = nil
@@ -149,7 +152,7 @@ func TestValidateHostileInput(t *testing.T) {
 				m.Cases = append(m.Cases, LoadCase{Name: "case " + strconv.Itoa(i+1), PointLoads: []PointLoad{p}})
 			}
 		}, place(ModelItem, -1, NoProperty),
-			"key points (ends and breaks of segments, supports, point loads and load points), each solved for 1e+03 load cases, more than the 4.3 GB allowed: use fewer supports, point loads and load points or fewer load cases, or split the member into several models (up to about 129 key points fit for 1e+03 load cases)"},
+			"key points (ends and breaks of segments, supports, point loads and load points), solved for 1e+03 load sets (1000 combinations of 1000 load cases), more than the 4.3 GB allowed: use fewer supports, point loads and load points, or take fewer load cases and combinations, or split the member into several models (up to about 129 key points fit)"},
 		// 100,000 point loads take 2.32 GB, which leaves room for
 		// (4,294,967,296 − 100,012 × 23,200) / 400 = 4,936,722 elements.
 		{"ten million elements and 100,000 point loads", func(m *Model) {
@@ -451,6 +454,36 @@ func TestValidateFactorSize(t *testing.T) {
 		edit(m)
 		if err := m.Validate(); err != nil {
 			t.Errorf("%s: refused: %v", name, err)
+		}
+	}
+}
+
+// The memory estimate counts the combinations a model's analysis solves
+// and keeps, not only its cases: two cases in eight combinations were
+// counted as two load sets of 400 B per element, so 5.3 million elements
+// passed. Worked by hand from the constants: 4 × (100 + 7 × 60 + 2 × 40) =
+// 2,400 B per element; the few key points take 8 × 32,800 B each, so
+// about (4,294,967,296 − 3 MB) / 2,400 = 1.79 million elements fit.
+func TestValidateMemoryOfCombinations(t *testing.T) {
+	model := func(elements int) *Model {
+		m := validModel()
+		withCases(m, 1.35, 1.5)
+		for k := 2; k <= 8; k++ {
+			m.Combinations = append(m.Combinations, Combination{Name: "Z" + strconv.Itoa(k), Factors: []CaseFactor{{Case: 0, Factor: 1}, {Case: 1, Factor: float64(k) / 10}}})
+		}
+		m.Mesh.Elements = elements
+		return m
+	}
+	if err := model(1_780_000).Validate(); err != nil {
+		t.Errorf("1.78 million elements, 8 combinations: refused: %v", err)
+	}
+	err := model(1_800_000).Validate()
+	for _, says := range []string{
+		"the mesh would need about 4.3 GB of memory (1.8e+06 elements, solved for 8 load sets (8 combinations of 2 load cases))",
+		"ask for fewer elements or a longer maximum element length, or take fewer load cases and combinations (up to about 1.79e+06 elements fit)",
+	} {
+		if err == nil || !strings.Contains(err.Error(), says) {
+			t.Errorf("1.8 million elements, 8 combinations: got %v, want it to say %q", err, says)
 		}
 	}
 }
