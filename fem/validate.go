@@ -980,7 +980,7 @@ func (v *validator) memory(m *Model) {
 	// 507 key points were told 138,000 key points fit.
 	solved, fewer := "", ""
 	if len(m.Cases) > 0 {
-		solved, fewer = fmt.Sprintf(", solved for %.3g load sets (%s)", sets, m.loadSetWords()), ", or take fewer load cases and combinations"
+		solved, fewer = ", solved for "+m.loadSetWords(), ", or take fewer load cases and combinations"
 	}
 	if least := keys * (sets*bytesPerKeyPoint + perElement); least > memoryLimit { // too much even with one element per stretch
 		v.add(Place{Item: modelItem}, fmt.Sprintf("the model would need at least %s of memory for its %.3g key points (ends and breaks of segments, supports, point loads and load points)%s, more than the %s allowed: use fewer supports, point loads and load points%s, or split the member into several models (up to about %.3g key points fit)",
@@ -997,13 +997,18 @@ func (v *validator) memory(m *Model) {
 		fmtGigabytes(need), elements, solved, limit, fewer, fit))
 }
 
-// memoryPerElement are the load sets m's analysis solves and keeps (one
-// without cases; with cases, the envelope's combinations and the span
-// shares of the cases placed by span) and the bytes it needs per element
-// for them, headroom included. The member's length must be valid (Spans).
+// memoryPerElement are the load sets whose exact solutions m's analysis
+// keeps (one without cases; with cases, the envelope's combinations, the
+// span shares of the cases placed by span, and each case alone for the
+// report's summaries) and the bytes it needs per element, headroom
+// included. The member's length must be valid (Spans).
 func (m *Model) memoryPerElement() (sets, bytes float64) {
 	combos, shares, _ := m.loadSetCounts()
-	return float64(combos + shares), memoryHeadroom * m.AllocationPerElement()
+	sets = float64(combos + shares)
+	if len(m.Cases) > 0 {
+		sets += float64(len(m.Cases))
+	}
+	return sets, memoryHeadroom * m.AllocationPerElement()
 }
 
 // AllocationPerElement is the bytes the memory estimate takes m's analysis
@@ -1043,13 +1048,14 @@ func (m *Model) loadSetCounts() (combos, shares, patterned int) {
 	return len(cbs), shares, patterned
 }
 
-// loadSetWords says what m's load sets are: "3 combinations, 2 span
-// shares of cases placed by span".
+// loadSetWords says what m's load sets are: "each of 2 load cases and 3
+// combinations", with ", and 2 span shares of cases placed by span" where
+// there are such.
 func (m *Model) loadSetWords() string {
 	combos, shares, _ := m.loadSetCounts()
-	words := fmt.Sprintf("%d combinations of %d load cases", combos, len(m.Cases))
+	words := fmt.Sprintf("each of %d load cases and %d combinations", len(m.Cases), combos)
 	if shares > 0 {
-		words += fmt.Sprintf(", %d span shares of cases placed by span", shares)
+		words += fmt.Sprintf(", and %d span shares of cases placed by span", shares)
 	}
 	return words
 }

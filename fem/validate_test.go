@@ -139,12 +139,13 @@ func TestValidateHostileInput(t *testing.T) {
 		// 7.08 GB; 4,294,967,296 / 23,600 = 181,990 key points fit.
 		{"300,000 point loads", func(m *Model) { m.PointLoads = manyPointLoads(300_000, 3) }, place(ModelItem, -1, NoProperty),
 			"the model would need at least 10.0 GB of memory for its 3e+05 key points (ends and breaks of segments, supports, point loads and load points), more than the 4.3 GB allowed: use fewer supports, point loads and load points, or split the member into several models (up to about 1.29e+05 key points fit)"},
-		// Each load case keeps its own solution (without combinations, each
-		// case alone is one), so what fits for one case (1.29e+05 key points,
-		// the row above) is shared among 1,000 cases: 129 key points (it
-		// once said the one case's figure). Per key point 1,000 × 32,800 B,
-		// and 4 × (100 + 999 × 60 + 1,000 × 40) B for its element:
-		// 4,294,967,296 / 33,200,160 = 129.
+		// Each load case keeps its exact solution, alone and as a
+		// combination (without combinations, each case alone is one), so
+		// what fits for one case (1.29e+05 key points, the row above) is
+		// shared among 2,000 load sets: 65 key points (it once said the one
+		// case's figure). Per key point 2,000 × 32,800 B, and
+		// 4 × (100 + 999 × 60 + 1,000 × 40) B for its element:
+		// 4,294,967,296 / 66,000,160 = 65.
 		{"1,000 load cases of 1,000 point loads", func(m *Model) {
 			loads := manyPointLoads(1000, 3)
 			m.PointLoads = nil
@@ -152,7 +153,7 @@ func TestValidateHostileInput(t *testing.T) {
 				m.Cases = append(m.Cases, LoadCase{Name: "case " + strconv.Itoa(i+1), PointLoads: []PointLoad{p}})
 			}
 		}, place(ModelItem, -1, NoProperty),
-			"key points (ends and breaks of segments, supports, point loads and load points), solved for 1e+03 load sets (1000 combinations of 1000 load cases), more than the 4.3 GB allowed: use fewer supports, point loads and load points, or take fewer load cases and combinations, or split the member into several models (up to about 129 key points fit)"},
+			"key points (ends and breaks of segments, supports, point loads and load points), solved for each of 1000 load cases and 1000 combinations, more than the 4.3 GB allowed: use fewer supports, point loads and load points, or take fewer load cases and combinations, or split the member into several models (up to about 65 key points fit)"},
 		// 100,000 point loads take 2.32 GB, which leaves room for
 		// (4,294,967,296 − 100,012 × 23,200) / 400 = 4,936,722 elements.
 		{"ten million elements and 100,000 point loads", func(m *Model) {
@@ -462,7 +463,7 @@ func TestValidateFactorSize(t *testing.T) {
 // and keeps, not only its cases: two cases in eight combinations were
 // counted as two load sets of 400 B per element, so 5.3 million elements
 // passed. Worked by hand from the constants: 4 × (100 + 7 × 60 + 2 × 40) =
-// 2,400 B per element; the few key points take 8 × 32,800 B each, so
+// 2,400 B per element; the few key points take 10 × 32,800 B each, so
 // about (4,294,967,296 − 3 MB) / 2,400 = 1.79 million elements fit.
 func TestValidateMemoryOfCombinations(t *testing.T) {
 	model := func(elements int) *Model {
@@ -479,7 +480,7 @@ func TestValidateMemoryOfCombinations(t *testing.T) {
 	}
 	err := model(1_800_000).Validate()
 	for _, says := range []string{
-		"the mesh would need about 4.3 GB of memory (1.8e+06 elements, solved for 8 load sets (8 combinations of 2 load cases))",
+		"the mesh would need about 4.3 GB of memory (1.8e+06 elements, solved for each of 2 load cases and 8 combinations)",
 		"ask for fewer elements or a longer maximum element length, or take fewer load cases and combinations (up to about 1.79e+06 elements fit)",
 	} {
 		if err == nil || !strings.Contains(err.Error(), says) {
