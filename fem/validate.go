@@ -93,7 +93,6 @@ const (
 	summaryBytesPerKeyPoint = 1200
 	exactBytesPerKeyPoint   = 4000
 
-	bytesPerElement  = memoryHeadroom * stagesBytesPerElement
 	bytesPerKeyPoint = memoryHeadroom * (solveBytesPerKeyPoint + summaryBytesPerKeyPoint + exactBytesPerKeyPoint)
 )
 
@@ -951,8 +950,8 @@ func (v *validator) memory(m *Model) {
 	// Upper bounds before the key points are merged and the mesh is built:
 	// every end, break, support, point load and load point a key point, and
 	// every stretch between them at least one element more than its share.
-	// Each load case is solved and kept on its own, so the stages count
-	// once per case.
+	// Each load set the analysis keeps (memoryPerElement) counts on its
+	// own.
 	keys := float64(featureCount(m) + 2)
 	elements := float64(max(m.Mesh.Elements, 0)) + keys
 	if h := m.Mesh.MaxElementLength; isFinite(h) && h > 0 {
