@@ -67,6 +67,19 @@ const (
 	// to 2·10⁵ elements, both bar orders). check.Run, outside this package,
 	// allocated nothing per element when measured by hand.
 	stagesBytesPerElement = 100
+	// A model with load cases keeps more per element (TestMemoryPerLoadSet
+	// in package analysis measures analysis.Run from 50,000 to 100,000
+	// elements): each combination of the envelope beyond the first and
+	// each span share of a case placed by span is a load set solved and
+	// kept (56 B), and each combination that takes a case placed by span
+	// solves arrangements of loaded spans for its checks (224 to 280 B with
+	// its own set, 2 to 8 spans). The report summarises each case alone
+	// (`stave solve` grew by 38 B of resident memory per element per case,
+	// 200,000 elements, 5 December). Before, only the cases were counted,
+	// each as one set: one case in eight combinations was counted as one.
+	setBytesPerElement     = 60
+	patternBytesPerElement = 230
+	caseBytesPerElement    = 40
 	// Per key point, with one element per stretch: Solve allocated at most
 	// 2,454 B (key points from 1,000 to 2,000, made of segment breaks,
 	// supports, point loads or load points; most for supports, whose
@@ -80,7 +93,6 @@ const (
 	summaryBytesPerKeyPoint = 1200
 	exactBytesPerKeyPoint   = 4000
 
-	bytesPerElement  = memoryHeadroom * stagesBytesPerElement
 	bytesPerKeyPoint = memoryHeadroom * (solveBytesPerKeyPoint + summaryBytesPerKeyPoint + exactBytesPerKeyPoint)
 )
 
@@ -307,13 +319,33 @@ func (v *validator) cases(m *Model, lengthKnown bool) {
 				v.add(Place{Item: it, Property: FactorCaseProperty, Vertex: f}, fmt.Sprintf("combination %q takes load case %q twice: give each case one factor", cb.Name, m.Cases[cf.Case].Name))
 			}
 			used[cf.Case] = true
-			if !isFinite(cf.Factor) {
-				v.add(Place{Item: it, Property: FactorProperty, Vertex: f}, fmt.Sprintf("combination %q, factor %d is %v: enter a finite number", cb.Name, f+1, cf.Factor))
-			}
+			v.factor(Place{Item: it, Property: FactorProperty, Vertex: f}, fmt.Sprintf("combination %q, factor %d", cb.Name, f+1), cf.Factor)
+		}
+		for _, tf := range cb.Trains {
+			v.factor(Place{Item: it, Property: FactorsProperty}, fmt.Sprintf("combination %q, the factor on moving load train %d", cb.Name, tf.Train+1), tf.Factor)
 		}
 		if len(cb.Factors) > 0 && appliesNothing(cb) {
 			v.add(Place{Item: it, Property: FactorsProperty}, fmt.Sprintf("combination %q applies no load: every factor is 0 (its envelope would be zero everywhere and govern nothing): give a case a factor other than 0, or delete the combination", cb.Name))
 		}
+	}
+}
+
+// MaxFactor is the largest factor, in size, a combination takes on a load
+// case or a moving load train. Results grow with the factor and the strain
+// energy with its square, which overflows float64 (1.8e308) past about
+// 1e150 times the energy of ordinary loads: a case factor of 1e300 was
+// refused by the solve, while a train's was taken and gave deflections of
+// 1e300 mm. Factors in codes are a few units.
+const MaxFactor = 1e150
+
+// factor checks one factor of a combination, what naming it: finite and
+// at most MaxFactor in size.
+func (v *validator) factor(at Place, what string, f float64) {
+	switch {
+	case !isFinite(f):
+		v.add(at, fmt.Sprintf("%s is %v: enter a finite number", what, f))
+	case math.Abs(f) > MaxFactor:
+		v.add(at, fmt.Sprintf("%s is %s, larger in size than the %s Stave takes (results grow with the factor, and their squares would overflow floating point): enter the factor your local code gives", what, fmtNumber(f), fmtNumber(MaxFactor)))
 	}
 }
 
@@ -918,8 +950,8 @@ func (v *validator) memory(m *Model) {
 	// Upper bounds before the key points are merged and the mesh is built:
 	// every end, break, support, point load and load point a key point, and
 	// every stretch between them at least one element more than its share.
-	// Each load case is solved and kept on its own, so the stages count
-	// once per case.
+	// Each load set the analysis keeps (memoryPerElement) counts on its
+	// own.
 	keys := float64(featureCount(m) + 2)
 	elements := float64(max(m.Mesh.Elements, 0)) + keys
 	if h := m.Mesh.MaxElementLength; isFinite(h) && h > 0 {
@@ -936,32 +968,95 @@ func (v *validator) memory(m *Model) {
 	if covered > 0 {
 		keys += elements * min(1, covered/v.L)
 	}
-	sets := float64(m.LoadSetCount())
-	elementBytes, keyBytes := sets*elements*bytesPerElement, sets*keys*bytesPerKeyPoint
+	sets, perElement := m.memoryPerElement()
+	elementBytes, keyBytes := elements*perElement, sets*keys*bytesPerKeyPoint
 	need := elementBytes + keyBytes
 	if need <= memoryLimit {
 		return
 	}
 	limit := fmtGigabytes(memoryLimit)
-	if least := sets * keys * (bytesPerKeyPoint + bytesPerElement); least > memoryLimit { // too much even with one element per stretch
-		// With cases, what fits is shared among them: 500 cases of 507
-		// key points were told 138,000 key points fit.
-		cases, fewer := "", ""
-		if sets > 1 {
-			cases, fewer = fmt.Sprintf(", each solved for %.3g load cases", sets), " or fewer load cases"
-		}
-		v.add(Place{Item: modelItem}, fmt.Sprintf("the model would need at least %s of memory for its %.3g key points (ends and breaks of segments, supports, point loads and load points)%s, more than the %s allowed: use fewer supports, point loads and load points%s, or split the member into several models (up to about %.3g key points fit%s)",
-			fmtGigabytes(least), keys, cases, limit, fewer, math.Floor(memoryLimit/(sets*(bytesPerKeyPoint+bytesPerElement))), strings.TrimPrefix(cases, ", each solved")))
+	// With cases, what fits is shared among their load sets: 500 cases of
+	// 507 key points were told 138,000 key points fit.
+	solved, fewer := "", ""
+	if len(m.Cases) > 0 {
+		solved, fewer = ", solved for "+m.loadSetWords(), ", or take fewer load cases and combinations"
+	}
+	if least := keys * (sets*bytesPerKeyPoint + perElement); least > memoryLimit { // too much even with one element per stretch
+		v.add(Place{Item: modelItem}, fmt.Sprintf("the model would need at least %s of memory for its %.3g key points (ends and breaks of segments, supports, point loads and load points)%s, more than the %s allowed: use fewer supports, point loads and load points%s, or split the member into several models (up to about %.3g key points fit)",
+			fmtGigabytes(least), keys, solved, limit, fewer, math.Floor(memoryLimit/(sets*bytesPerKeyPoint+perElement))))
 		return
 	}
-	fit := math.Floor((memoryLimit - keyBytes) / (sets * bytesPerElement))
+	fit := math.Floor((memoryLimit - keyBytes) / perElement)
 	if !isFinite(need) {
 		v.add(Place{Item: meshItem, Property: ElementsProperty}, fmt.Sprintf("the mesh would need more than %s of memory (over %s elements), far more than the %s allowed: ask for fewer elements or a longer maximum element length (up to about %.3g elements fit)",
-			fmtGigabytes(floorPowerOfTen(math.MaxFloat64)), fmtNumber(floorPowerOfTen(math.MaxFloat64/bytesPerElement)), limit, fit))
+			fmtGigabytes(floorPowerOfTen(math.MaxFloat64)), fmtNumber(floorPowerOfTen(math.MaxFloat64/perElement)), limit, fit))
 		return
 	}
-	v.add(Place{Item: meshItem, Property: ElementsProperty}, fmt.Sprintf("the mesh would need about %s of memory (%.3g elements), more than the %s allowed: ask for fewer elements or a longer maximum element length (up to about %.3g elements fit)",
-		fmtGigabytes(need), elements, limit, fit))
+	v.add(Place{Item: meshItem, Property: ElementsProperty}, fmt.Sprintf("the mesh would need about %s of memory (%.3g elements%s), more than the %s allowed: ask for fewer elements or a longer maximum element length%s (up to about %.3g elements fit)",
+		fmtGigabytes(need), elements, solved, limit, fewer, fit))
+}
+
+// memoryPerElement are the load sets whose exact solutions m's analysis
+// keeps (one without cases; with cases, the envelope's combinations, the
+// span shares of the cases placed by span, and each case alone for the
+// report's summaries) and the bytes it needs per element, headroom
+// included. The member's length must be valid (Spans).
+func (m *Model) memoryPerElement() (sets, bytes float64) {
+	combos, shares, _ := m.loadSetCounts()
+	sets = float64(combos + shares)
+	if len(m.Cases) > 0 {
+		sets += float64(len(m.Cases))
+	}
+	return sets, memoryHeadroom * m.AllocationPerElement()
+}
+
+// AllocationPerElement is the bytes the memory estimate takes m's analysis
+// to allocate per element, before its headroom: for the stages of one load
+// set, each further set kept, each combination that arranges loaded spans
+// and each case. The member's length must be valid (Spans).
+func (m *Model) AllocationPerElement() float64 {
+	combos, shares, patterned := m.loadSetCounts()
+	return stagesBytesPerElement + setBytesPerElement*float64(combos+shares-1) +
+		patternBytesPerElement*float64(patterned) + caseBytesPerElement*float64(len(m.Cases))
+}
+
+// loadSetCounts are the combinations of m's envelope, the span shares of
+// its cases placed by span (one per span each) and the combinations that
+// take such a case.
+func (m *Model) loadSetCounts() (combos, shares, patterned int) {
+	if len(m.Cases) == 0 {
+		return 1, 0, 0
+	}
+	spans := 0
+	for _, lc := range m.Cases {
+		if lc.BySpan {
+			if spans == 0 {
+				spans = len(m.Spans())
+			}
+			shares += spans
+		}
+	}
+	cbs := m.EnvelopeCombinations()
+	for _, cb := range cbs {
+		if slices.ContainsFunc(cb.Factors, func(cf CaseFactor) bool {
+			return cf.Case >= 0 && cf.Case < len(m.Cases) && m.Cases[cf.Case].BySpan
+		}) {
+			patterned++
+		}
+	}
+	return len(cbs), shares, patterned
+}
+
+// loadSetWords says what m's load sets are: "each of 2 load cases and 3
+// combinations", with ", and 2 span shares of cases placed by span" where
+// there are such.
+func (m *Model) loadSetWords() string {
+	combos, shares, _ := m.loadSetCounts()
+	words := fmt.Sprintf("each of %d load cases and %d combinations", len(m.Cases), combos)
+	if shares > 0 {
+		words += fmt.Sprintf(", and %d span shares of cases placed by span", shares)
+	}
+	return words
 }
 
 func isFinite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }

@@ -142,9 +142,13 @@ func TestValidateHostileInput(t *testing.T) {
 		// 7.08 GB; 4,294,967,296 / 23,600 = 181,990 key points fit.
 		{"300,000 point loads", func(m *Model) { m.PointLoads = manyPointLoads(300_000, 3) }, place(ModelItem, -1, NoProperty),
 			"the model would need at least 10.0 GB of memory for its 3e+05 key points (ends and breaks of segments, supports, point loads and load points), more than the 4.3 GB allowed: use fewer supports, point loads and load points, or split the member into several models (up to about 1.29e+05 key points fit)"},
-		// Each load case keeps its own solution, so what fits for one case
-		// (1.29e+05 key points, the row above) is shared among 1,000 cases:
-		// 129 key points (it once said the one case's figure).
+		// Each load case keeps its exact solution, alone and as a
+		// combination (without combinations, each case alone is one), so
+		// what fits for one case (1.29e+05 key points, the row above) is
+		// shared among 2,000 load sets: 65 key points (it once said the one
+		// case's figure). Per key point 2,000 × 32,800 B, and
+		// 4 × (100 + 999 × 60 + 1,000 × 40) B for its element:
+		// 4,294,967,296 / 66,000,160 = 65.
 		{"1,000 load cases of 1,000 point loads", func(m *Model) {
 			loads := manyPointLoads(1000, 3)
 			m.PointLoads = nil
@@ -152,7 +156,7 @@ func TestValidateHostileInput(t *testing.T) {
 				m.Cases = append(m.Cases, LoadCase{Name: "case " + strconv.Itoa(i+1), PointLoads: []PointLoad{p}})
 			}
 		}, place(ModelItem, -1, NoProperty),
-			"key points (ends and breaks of segments, supports, point loads and load points), each solved for 1e+03 load cases, more than the 4.3 GB allowed: use fewer supports, point loads and load points or fewer load cases, or split the member into several models (up to about 129 key points fit for 1e+03 load cases)"},
+			"key points (ends and breaks of segments, supports, point loads and load points), solved for each of 1000 load cases and 1000 combinations, more than the 4.3 GB allowed: use fewer supports, point loads and load points, or take fewer load cases and combinations, or split the member into several models (up to about 65 key points fit)"},
 		// 100,000 point loads take 2.32 GB, which leaves room for
 		// (4,294,967,296 − 100,012 × 23,200) / 400 = 4,936,722 elements.
 		{"ten million elements and 100,000 point loads", func(m *Model) {
@@ -388,18 +392,6 @@ func keyPointModel(kind string, n int) *Model {
 // displacement in Z)". One factor other than 0, on a case or on a moving
 // load train, is a load.
 func TestValidateCombinationOfZeroFactors(t *testing.T) {
-	withCases := func(m *Model, factors ...float64) {
-		m.PointLoads, m.DistributedLoad = nil, nil
-		m.Cases = []LoadCase{
-			{Name: "permanent", PointLoads: []PointLoad{{X: 1.5, Transverse: -1e3}}},
-			{Name: "imposed", PointLoads: []PointLoad{{X: 2, Transverse: -1e3}}},
-		}
-		cb := Combination{Name: "Z"}
-		for k, f := range factors {
-			cb.Factors = append(cb.Factors, CaseFactor{Case: k, Factor: f})
-		}
-		m.Combinations = []Combination{cb}
-	}
 	checkValidation(t, []validationCase{
 		{"every factor 0", func(m *Model) { withCases(m, 0, 0) }, place(CombinationItem, 0, FactorsProperty), `combination "Z" applies no load: every factor is 0`},
 	})
@@ -417,6 +409,85 @@ func TestValidateCombinationOfZeroFactors(t *testing.T) {
 		c.edit(m)
 		if err := m.Validate(); err != nil {
 			t.Errorf("%s: refused: %v", c.name, err)
+		}
+	}
+}
+
+// withCases moves m's loads into two cases, "permanent" and "imposed",
+// and combines them in one combination "Z" with the factors given, in turn.
+func withCases(m *Model, factors ...float64) {
+	m.PointLoads, m.DistributedLoad = nil, nil
+	m.Cases = []LoadCase{
+		{Name: "permanent", PointLoads: []PointLoad{{X: 1.5, Transverse: -1e3}}},
+		{Name: "imposed", PointLoads: []PointLoad{{X: 2, Transverse: -1e3}}},
+	}
+	cb := Combination{Name: "Z"}
+	for k, f := range factors {
+		cb.Factors = append(cb.Factors, CaseFactor{Case: k, Factor: f})
+	}
+	m.Combinations = []Combination{cb}
+}
+
+// Factors beyond sense are refused alike on cases and on trains: a case
+// factor of 1e300 was refused (by the solve, its results overflowing)
+// while a train's factor of 1e300 was taken and gave deflections of about
+// 1e300 mm. Up to MaxFactor in size both are taken.
+func TestValidateFactorSize(t *testing.T) {
+	train := func(f float64) func(m *Model) {
+		return func(m *Model) {
+			withCases(m, 1.35, 1.5)
+			m.Combinations[0].Trains = []TrainFactor{{Train: 0, Factor: 1}, {Train: 1, Factor: f}}
+		}
+	}
+	caseFactor := Place{Item: Item{Kind: CombinationItem}, Property: FactorProperty, Vertex: 1}
+	checkValidation(t, []validationCase{
+		{"case factor 1e300", func(m *Model) { withCases(m, 1.35, 1e300) }, caseFactor, `combination "Z", factor 2 is 1e+300, larger in size than the 1e+150 Stave takes`},
+		{"case factor -1e300", func(m *Model) { withCases(m, 1.35, -1e300) }, caseFactor, `combination "Z", factor 2 is -1e+300, larger in size`},
+		{"case factor just over the most", func(m *Model) { withCases(m, 1.35, math.Nextafter(MaxFactor, math.Inf(1))) }, caseFactor, "larger in size than the 1e+150"},
+		{"case factor infinite", func(m *Model) { withCases(m, 1.35, math.Inf(-1)) }, caseFactor, `combination "Z", factor 2 is -Inf: enter a finite number`},
+		{"train factor 1e300", train(1e300), place(CombinationItem, 0, FactorsProperty), `combination "Z", the factor on moving load train 2 is 1e+300, larger in size than the 1e+150 Stave takes`},
+		{"train factor -1e300", train(-1e300), place(CombinationItem, 0, FactorsProperty), `moving load train 2 is -1e+300, larger in size`},
+		{"train factor NaN", train(math.NaN()), place(CombinationItem, 0, FactorsProperty), `moving load train 2 is NaN: enter a finite number`},
+	})
+	for name, edit := range map[string]func(m *Model){
+		"case factors of the most": func(m *Model) { withCases(m, MaxFactor, -MaxFactor) },
+		"train factor of the most": train(MaxFactor),
+		"train factor of 0":        train(0),
+	} {
+		m := validModel()
+		edit(m)
+		if err := m.Validate(); err != nil {
+			t.Errorf("%s: refused: %v", name, err)
+		}
+	}
+}
+
+// The memory estimate counts the combinations a model's analysis solves
+// and keeps, not only its cases: two cases in eight combinations were
+// counted as two load sets of 400 B per element, so 5.3 million elements
+// passed. Worked by hand from the constants: 4 × (100 + 7 × 60 + 2 × 40) =
+// 2,400 B per element; the few key points take 10 × 32,800 B each, so
+// about (4,294,967,296 − 3 MB) / 2,400 = 1.79 million elements fit.
+func TestValidateMemoryOfCombinations(t *testing.T) {
+	model := func(elements int) *Model {
+		m := validModel()
+		withCases(m, 1.35, 1.5)
+		for k := 2; k <= 8; k++ {
+			m.Combinations = append(m.Combinations, Combination{Name: "Z" + strconv.Itoa(k), Factors: []CaseFactor{{Case: 0, Factor: 1}, {Case: 1, Factor: float64(k) / 10}}})
+		}
+		m.Mesh.Elements = elements
+		return m
+	}
+	if err := model(1_780_000).Validate(); err != nil {
+		t.Errorf("1.78 million elements, 8 combinations: refused: %v", err)
+	}
+	err := model(1_800_000).Validate()
+	for _, says := range []string{
+		"the mesh would need about 4.3 GB of memory (1.8e+06 elements, solved for each of 2 load cases and 8 combinations)",
+		"ask for fewer elements or a longer maximum element length, or take fewer load cases and combinations (up to about 1.79e+06 elements fit)",
+	} {
+		if err == nil || !strings.Contains(err.Error(), says) {
+			t.Errorf("1.8 million elements, 8 combinations: got %v, want it to say %q", err, says)
 		}
 	}
 }

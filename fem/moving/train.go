@@ -89,6 +89,13 @@ const (
 	// of testdata/moving/runway.json, 100 axles driving on and off took
 	// 2.3 s for `stave solve`, 30 axles 0.2 s).
 	MaxAxles = 100
+	// MaxLoad is the largest axle load (N) and uniform load (N/m) a train
+	// may have, in SI, as fem.MaxFactor is the largest factor of a
+	// combination, and for the same reason: results grow with the load
+	// and their squares would overflow floating point (an axle of 1e300 N
+	// was taken and only left out with a caution, where the load of a case
+	// so large is refused).
+	MaxLoad = 1e150
 )
 
 // CloneTrains copies ts deeply: no slice is shared with ts; nil stays nil.
@@ -229,8 +236,11 @@ func (t *Train) OwnProblems(u units.System) []Problem {
 		add("axles", "it has %d axles; Stave takes at most %d (the search for the worst place tries the points under every axle at every position): give the axles that fit on the member at once, or join close axles into one", len(t.Axles), MaxAxles)
 	}
 	for i, a := range t.Axles {
-		if !(a.Load > 0) || !finite(a.Load) {
+		switch {
+		case !(a.Load > 0) || !finite(a.Load):
 			add(fmt.Sprintf("axles[%d].load", i), "axle %d has a load of %s: an axle load is a weight acting down, enter it above zero", i+1, quote(u, units.Force, a.Load))
+		case a.Load > MaxLoad:
+			add(fmt.Sprintf("axles[%d].load", i), "axle %d has a load of %s, more than the %s Stave takes (%s): check the value and its units", i+1, quote(u, units.Force, a.Load), quote(u, units.Force, MaxLoad), tooLarge)
 		}
 		switch {
 		case i == 0 && a.Spacing != 0:
@@ -240,8 +250,11 @@ func (t *Train) OwnProblems(u units.System) []Problem {
 		}
 	}
 	if ul := t.Uniform; ul.Load != 0 || ul.Length != 0 || ul.Start != 0 {
-		if !(ul.Load > 0) || !finite(ul.Load) {
+		switch {
+		case !(ul.Load > 0) || !finite(ul.Load):
 			add("uniform.load", "the uniform load is %s: enter it above zero (acting down), or leave the uniform load out", quote(u, units.LineLoad, ul.Load))
+		case ul.Load > MaxLoad:
+			add("uniform.load", "the uniform load is %s, more than the %s Stave takes (%s): check the value and its units", quote(u, units.LineLoad, ul.Load), quote(u, units.LineLoad, MaxLoad), tooLarge)
 		}
 		if !(ul.Length > 0) || !finite(ul.Length) {
 			add("uniform.length", "the uniform load is %s long: enter a length above zero", x(ul.Length))
@@ -264,6 +277,9 @@ func (t *Train) OwnProblems(u units.System) []Problem {
 	}
 	return out
 }
+
+// tooLarge says why a load above MaxLoad is refused.
+const tooLarge = "results grow with the load, and their squares would overflow floating point"
 
 // quote prints v, an SI value of kind k, in u's unit: "3.2 m", "10.5 ft";
 // units of no name (the zero System) are SI base units.

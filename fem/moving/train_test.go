@@ -247,6 +247,11 @@ func TestTrainProblems(t *testing.T) {
 		{"a run that ends before it starts", func(t *Train) { t.From, t.To = 6, 5 }, "to", "after its start"},
 		{"a run off the member", func(t *Train) { t.From = 11 }, "from", "not on the member"},
 		{"a uniform load with no length", func(t *Train) { t.Uniform = UniformLoad{Load: 1e3} }, "uniform.length", "above zero"},
+		// An axle of 1e300 N was taken, and the train only left out with a
+		// caution that its results overflow.
+		{"an axle load beyond floating point's squares", func(t *Train) { t.Axles[1].Load = 1e300 }, "axles[1].load", "axle 2 has a load of 1e+300 N, more than the 1e+150 N Stave takes"},
+		{"an axle load just over the most", func(t *Train) { t.Axles[0].Load = math.Nextafter(MaxLoad, math.Inf(1)) }, "axles[0].load", "more than the 1e+150 N"},
+		{"a uniform load beyond floating point's squares", func(t *Train) { t.Uniform = UniformLoad{Load: 1e300, Length: 2} }, "uniform.load", "the uniform load is 1e+300 N/m, more than the 1e+150 N/m"},
 	} {
 		t.Run(c.name, func(t *testing.T) {
 			tr := ok
@@ -272,6 +277,10 @@ func TestTrainProblems(t *testing.T) {
 	long.Axles[1].Spacing = 12
 	if got, want := long.Problems(10, units.System{}), long.Problems(10, units.Base); !slices.Equal(got, want) {
 		t.Errorf("problems in units of no name %+v, in SI base units %+v", got, want)
+	}
+	heaviest := Train{Axles: []Axle{{Load: MaxLoad}}, Uniform: UniformLoad{Load: MaxLoad, Length: 2}}
+	if ps := heaviest.Problems(10, units.Base); len(ps) != 0 {
+		t.Errorf("a train of loads %g has problems: %+v", MaxLoad, ps)
 	}
 	most := Train{Axles: []Axle{{Load: 1e3}}}
 	for len(most.Axles) < MaxAxles {
