@@ -102,9 +102,21 @@ func TestExportEnvelopeOverflow(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	// The largest factor Stave takes (fem.MaxFactor) on loads 1e150 times the file's:
+	// the results, beyond 1e300, and their squares overflow.
 	for i := range p.Model.Combinations {
 		for j := range p.Model.Combinations[i].Factors {
-			p.Model.Combinations[i].Factors[j].Factor = 1e308
+			p.Model.Combinations[i].Factors[j].Factor = fem.MaxFactor
+		}
+	}
+	for _, c := range p.Model.Cases {
+		for _, d := range c.DistributedLoad {
+			for j := range d.Points {
+				d.Points[j].Intensity *= 1e150
+			}
+		}
+		for j := range c.PointLoads {
+			c.PointLoads[j].Transverse *= 1e150
 		}
 	}
 	for _, product := range []string{"svg", "sheet-pdf"} {
