@@ -947,27 +947,7 @@ func (v *validator) mesh(m *Model, lengthKnown bool) {
 // blaming the key points when they do not fit even with one element per
 // stretch, else the elements.
 func (v *validator) memory(m *Model) {
-	// Upper bounds before the key points are merged and the mesh is built:
-	// every end, break, support, point load and load point a key point, and
-	// every stretch between them at least one element more than its share.
-	// Each load set the analysis keeps (memoryPerElement) counts on its
-	// own.
-	keys := float64(featureCount(m) + 2)
-	elements := float64(max(m.Mesh.Elements, 0)) + keys
-	if h := m.Mesh.MaxElementLength; isFinite(h) && h > 0 {
-		elements += math.Ceil(v.L / h) // +Inf when L/h overflows
-	}
-	// On a foundation every node is a key point of the factorized system
-	// (hierarchy.go): count the elements there as key points too.
-	covered := 0.0
-	for _, f := range m.Foundations {
-		if isFinite(f.Start) && isFinite(f.End) {
-			covered += max(0, min(f.End, v.L)-max(f.Start, 0))
-		}
-	}
-	if covered > 0 {
-		keys += elements * min(1, covered/v.L)
-	}
+	elements, keys := m.meshBound(v.L)
 	sets, perElement := m.memoryPerElement()
 	elementBytes, keyBytes := elements*perElement, sets*keys*bytesPerKeyPoint
 	need := elementBytes + keyBytes
@@ -994,6 +974,62 @@ func (v *validator) memory(m *Model) {
 	}
 	v.add(Place{Item: meshItem, Property: ElementsProperty}, fmt.Sprintf("the mesh would need about %s of memory (%.3g elements%s), more than the %s allowed: ask for fewer elements or a longer maximum element length%s (up to about %.3g elements fit)",
 		fmtGigabytes(need), elements, solved, limit, fewer, fit))
+}
+
+// meshBound are upper bounds on the elements and key points of the mesh
+// of m, of length L, before the key points are merged and the mesh is
+// built: every end, break, support, point load and load point a key
+// point, and every stretch between them at least one element more than
+// its share. Each load set the analysis keeps (memoryPerElement) counts
+// on its own.
+func (m *Model) meshBound(L float64) (elements, keys float64) {
+	keys = float64(featureCount(m) + 2)
+	elements = float64(max(m.Mesh.Elements, 0)) + keys
+	if h := m.Mesh.MaxElementLength; isFinite(h) && h > 0 {
+		elements += math.Ceil(L / h) // +Inf when L/h overflows
+	}
+	// On a foundation every node is a key point of the factorized system
+	// (hierarchy.go): count the elements there as key points too.
+	covered := 0.0
+	for _, f := range m.Foundations {
+		if isFinite(f.Start) && isFinite(f.End) {
+			covered += max(0, min(f.End, L)-max(f.Start, 0))
+		}
+	}
+	if covered > 0 {
+		keys += elements * min(1, covered/L)
+	}
+	return elements, keys
+}
+
+// trainBytesPerElement is what the envelope of one moving load train adds
+// per element: `stave solve` of the runway example grew in resident
+// memory by 965 to 1,030 B per element for its first train and 650 to
+// 825 B for its second (100,000 and 400,000 elements, 5 December); a
+// resident peak, it holds the collector's slack already, so with
+// memoryHeadroom the estimate is about twice what it needs.
+const trainBytesPerElement = 1000
+
+// TrainsMemoryProblem is the problem of model m when its analysis, with
+// trains moving load trains enveloped beside it (which live outside the
+// model), would need more memory than Validate allows; ok is false when
+// it fits or there are no trains. m must be valid (Validate returns nil).
+func (m *Model) TrainsMemoryProblem(trains int) (p Problem, ok bool) {
+	L := m.Length()
+	if trains <= 0 || !isFinite(L) || L <= 0 {
+		return Problem{}, false
+	}
+	elements, keys := m.meshBound(L)
+	sets, perElement := m.memoryPerElement()
+	own := elements*perElement + sets*keys*bytesPerKeyPoint
+	perTrain := float64(memoryHeadroom * trainBytesPerElement)
+	need := own + elements*perTrain*float64(trains)
+	if !(own <= memoryLimit) || need <= memoryLimit {
+		return Problem{}, false
+	}
+	fit := math.Floor((memoryLimit - sets*keys*bytesPerKeyPoint) / (perElement + perTrain*float64(trains)))
+	return Problem{Place: Place{Item: meshItem, Property: ElementsProperty}, Message: fmt.Sprintf("the mesh would need about %s of memory (%.3g elements, with the envelopes of %s), more than the %s allowed: ask for fewer elements or a longer maximum element length, or take fewer trains (up to about %.3g elements fit)",
+		fmtGigabytes(need), elements, units.Count(trains, "moving load train"), fmtGigabytes(memoryLimit), fit)}, true
 }
 
 // memoryPerElement are the load sets whose exact solutions m's analysis

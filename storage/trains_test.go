@@ -149,3 +149,36 @@ func TestCombinationTakesATrain(t *testing.T) {
 		t.Errorf("an unknown train: %v", err)
 	}
 }
+
+// The memory estimate counts the envelopes of the file's trains, which
+// live outside the model: the runway example with its two trains fits at
+// 500,000 elements and is refused at 520,000 (the model's own 400 B per
+// element, each train's 4,000 B: about 511,000 fit in 4 GiB), naming the
+// mesh and the trains; without its trains, 520,000 elements fit. Each
+// train's envelope grew `stave solve`'s resident memory by about 1 KB per
+// element (runway example, 100,000 and 400,000 elements, measured 5
+// December); the limit is Stave's own (fem.Validate's memory estimate).
+func TestTrainsCountInTheMemoryEstimate(t *testing.T) {
+	p, err := Load(filepath.Join("..", "testdata", "moving", "runway.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		elements int
+		trains   bool
+		refused  bool
+	}{{500_000, true, false}, {520_000, true, true}, {520_000, false, false}} {
+		q := *p
+		q.Model.Mesh.Elements = c.elements
+		if !c.trains {
+			q.Trains = nil
+		}
+		err := Validate(&q)
+		switch {
+		case c.refused && (err == nil || !strings.Contains(err.Error(), "mesh.elements") || !strings.Contains(err.Error(), "2 moving load trains")):
+			t.Errorf("%d elements with trains %v: %v; want the mesh refused for the 2 moving load trains' envelopes", c.elements, c.trains, err)
+		case !c.refused && err != nil:
+			t.Errorf("%d elements with trains %v refused: %v", c.elements, c.trains, err)
+		}
+	}
+}

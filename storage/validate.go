@@ -23,6 +23,8 @@ func check(p *Project) []Problem {
 		}
 	} else if err != nil {
 		add("", "%v", err)
+	} else if q, ok := p.Model.TrainsMemoryProblem(len(p.Trains)); ok {
+		problems = append(problems, Problem{Path: modelPath(q.Place, nil), Message: q.Message})
 	}
 	problems = append(problems, caseProblems(p)...)
 	problems = append(problems, trainProblems(p)...)
